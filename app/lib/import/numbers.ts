@@ -1,0 +1,45 @@
+/**
+ * Number parsing for vendor CSV cells. Pure: no Node or DOM APIs.
+ *
+ * Accepted (dot-decimal files):   12  12.5  .5  -3  1e-3  1,450 (thousands, only 1-3 leading digits then ,ddd groups)
+ * Accepted (decimal-comma files): 12  12,5  ,5  -3  1.450 (thousands: leading digit 1-9, then .ddd groups)  1.450,25
+ *   and, because mixed exports happen, a plain dot decimal like 0.785 or 12.5 that is not a thousands pattern.
+ * Spaces, no-break spaces and thin spaces between digits are dropped (1 450 → 1450).
+ * Anything else (units inside the cell, "n/a", "12.x") is NaN.
+ */
+
+const SPACES = /[\s\u00a0\u202f\u2009]+/g;
+const DOT_DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+const DOT_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:,\d{3})+(?:\.\d+)?$/;
+const COMMA_DECIMAL = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
+const COMMA_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:\.\d{3})+(?:,\d+)?$/;
+
+export function parseNumber(raw: string, decimalComma: boolean): number {
+  const s = raw.replace(SPACES, "");
+  if (s === "") return Number.NaN;
+  if (decimalComma) {
+    if (COMMA_THOUSANDS.test(s)) return Number(s.replace(/\./g, "").replace(",", "."));
+    if (COMMA_DECIMAL.test(s)) return Number(s.replace(",", "."));
+    if (DOT_DECIMAL.test(s)) return Number(s);
+    return Number.NaN;
+  }
+  if (DOT_DECIMAL.test(s)) return Number(s);
+  if (DOT_THOUSANDS.test(s)) return Number(s.replace(/,/g, ""));
+  return Number.NaN;
+}
+
+/** True when the cell reads as a number under either convention (used by the sniffer before the convention is known). */
+export function looksNumeric(raw: string): boolean {
+  return !Number.isNaN(parseNumber(raw, false)) || !Number.isNaN(parseNumber(raw, true));
+}
+
+/** A cell like 12,5 or -0,75: digits, one comma, digits, no dot. Evidence for a decimal comma. */
+export function isCommaDecimalCell(raw: string): boolean {
+  return /^[+-]?\d+,\d+$/.test(raw.replace(SPACES, ""));
+}
+
+/** A cell like 12.5 (dot, not a possible thousands group like 1.450). Evidence against a decimal comma. */
+export function isDotDecimalCell(raw: string): boolean {
+  const s = raw.replace(SPACES, "");
+  return /^[+-]?\d*\.\d+$/.test(s) && !COMMA_THOUSANDS.test(s);
+}

@@ -1,0 +1,11 @@
+import type { Route } from "./+types/healthz";
+import { health } from "~/lib/health.server";
+
+// GET /healthz → { status, db: "ok" | "down", version }; 503 when the database does not answer.
+export async function loader(_: Route.LoaderArgs) {
+  const h = await health();
+  return Response.json(h, {
+    status: h.db === "ok" ? 200 : 503,
+    headers: { "Cache-Control": "no-store" },
+  });
+}

@@ -1,0 +1,97 @@
+// Drizzle schema (MariaDB). Conventions (DEVELOPERS.md): ids are unsigned BIGINT auto-increment in
+// number mode (drizzle-kit's serial() emits SQL MariaDB rejects); lucia's ids are varchar strings;
+// times are DATETIME(3) in UTC; physical quantities are DOUBLE in SI units.
+import { sql } from "drizzle-orm";
+import {
+  bigint,
+  datetime,
+  index,
+  int,
+  mysqlTable,
+  uniqueIndex,
+  varchar,
+  mysqlEnum,
+  boolean,
+  text,
+} from "drizzle-orm/mysql-core";
+
+export const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
+export const ref = (name: string) => bigint(name, { mode: "number", unsigned: true });
+export const createdAt = () =>
+  datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+
+export const PLANS = ["free", "network"] as const;
+
+export const workspaces = mysqlTable(
+  "workspaces",
+  {
+    id: id(),
+    name: varchar("name", { length: 120 }).notNull(),
+    slug: varchar("slug", { length: 140 }).notNull(),
+    plan: mysqlEnum("plan", PLANS).notNull().default("free"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("workspaces_slug_uq").on(t.slug)],
+);
+
+export const ROLES = ["admin", "engineer", "distributor", "contractor", "viewer"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const users = mysqlTable(
+  "users",
+  {
+    id: varchar("id", { length: 40 }).primaryKey(),
+    email: varchar("email", { length: 254 }).notNull(),
+    name: varchar("name", { length: 120 }).notNull().default(""),
+    passwordHash: varchar("password_hash", { length: 255 }).notNull(),
+    emailVerified: boolean("email_verified").notNull().default(false),
+    unitSystem: mysqlEnum("unit_system", ["SI", "US"]).notNull().default("SI"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("users_email_uq").on(t.email)],
+);
+
+export const sessions = mysqlTable(
+  "sessions",
+  {
+    id: varchar("id", { length: 255 }).primaryKey(),
+    userId: varchar("user_id", { length: 40 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+  },
+  (t) => [index("sessions_user_idx").on(t.userId)],
+);
+
+export const memberships = mysqlTable(
+  "memberships",
+  {
+    id: id(),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: varchar("user_id", { length: 40 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: mysqlEnum("role", ROLES).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("memberships_ws_user_uq").on(t.workspaceId, t.userId)],
+);
+
+/** A write-ahead of every e-mail: sent by the mailer, kept when the SMTP server is down. */
+export const outbox = mysqlTable(
+  "outbox",
+  {
+    id: id(),
+    toAddress: varchar("to_address", { length: 254 }).notNull(),
+    subject: varchar("subject", { length: 200 }).notNull(),
+    textBody: text("text_body").notNull(),
+    htmlBody: text("html_body").notNull(),
+    attempts: int("attempts").notNull().default(0),
+    lastError: varchar("last_error", { length: 500 }),
+    sentAt: datetime("sent_at", { mode: "date", fsp: 3 }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("outbox_unsent_idx").on(t.sentAt)],
+);

@@ -1,0 +1,35 @@
+import { expect, test } from "@playwright/test";
+
+test("a visitor sees the Dutymark shell, and the page asks nothing of any host but 127.0.0.1", async ({ page, baseURL }) => {
+  const offHost: string[] = [];
+  page.on("request", (req) => {
+    const u = new URL(req.url());
+    if (!["http:", "https:", "ws:", "wss:"].includes(u.protocol)) return; // data:, blob:
+    if (u.hostname !== "127.0.0.1") offHost.push(req.url());
+  });
+  const res = await page.goto("/");
+  expect(res?.status()).toBe(200);
+  await expect(page.getByRole("link", { name: "Dutymark" })).toBeVisible();
+  await expect(page.getByRole("navigation", { name: "Main" })).toBeVisible();
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("Size the pump");
+  // The font ships with the app.
+  const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
+  expect(font).toContain("Source Sans 3");
+  await page.waitForLoadState("networkidle");
+  await page.screenshot({ path: "e2e/artifacts/shell.png", fullPage: true });
+  expect(offHost, `requests off 127.0.0.1 from ${baseURL}`).toEqual([]);
+});
+
+test("an unknown address answers 404 with our page", async ({ page }) => {
+  const res = await page.goto("/no-such-place");
+  expect(res?.status()).toBe(404);
+  await expect(page.getByRole("heading", { name: "Page not found" })).toBeVisible();
+});
+
+test("/healthz reports the database", async ({ request }) => {
+  const res = await request.get("/healthz");
+  expect(res.status()).toBe(200);
+  const body = await res.json();
+  expect(body).toMatchObject({ status: "ok", db: "ok" });
+  expect(typeof body.version).toBe("string");
+});
