@@ -1,4 +1,6 @@
 import {
+  data,
+  Form,
   isRouteErrorResponse,
   Links,
   Meta,
@@ -6,9 +8,59 @@ import {
   Outlet,
   Scripts,
   ScrollRestoration,
+  useRouteLoaderData,
 } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
+import { csrfRefusal } from "~/lib/csrf.server";
+import { getAuth } from "~/lib/auth.server";
+import { currentMembership } from "~/lib/guards.server";
+import { problem } from "~/lib/problem.server";
+
+/** Bodies above these sizes are refused before any action reads them (413). */
+const BODY_LIMITS: [RegExp, number][] = [
+  [/\/upload$/, 25 * 1024 * 1024],
+  [/\/photos$/, 12 * 1024 * 1024],
+  [/^\/api\/stripe\/webhook$/, 512 * 1024],
+];
+const DEFAULT_BODY_LIMIT = 1024 * 1024;
+
+export const middleware: Route.MiddlewareFunction[] = [
+  async ({ request }, next) => {
+    const url = new URL(request.url);
+    const isApi = url.pathname.startsWith("/api/");
+    const refusal = csrfRefusal(request);
+    if (refusal) {
+      if (isApi) throw problem({ title: "Forbidden", status: 403, detail: refusal });
+      throw data(refusal, { status: 403 });
+    }
+    const length = Number(request.headers.get("content-length") ?? 0);
+    const limit = BODY_LIMITS.find(([re]) => re.test(url.pathname))?.[1] ?? DEFAULT_BODY_LIMIT;
+    if (length > limit) {
+      const detail = `The request is too large (${(length / 1048576).toFixed(1)} MB; the limit here is ${(limit / 1048576).toFixed(0)} MB).`;
+      if (isApi) throw problem({ title: "Payload Too Large", status: 413, detail });
+      throw data(detail, { status: 413 });
+    }
+    const res = await next();
+    const auth = await getAuth(request).catch(() => null);
+    if (auth?.refreshCookie && res instanceof Response) res.headers.append("Set-Cookie", auth.refreshCookie);
+    return res;
+  },
+];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const auth = await getAuth(request);
+  if (!auth) return { me: null };
+  const { current } = await currentMembership(auth);
+  return {
+    me: {
+      name: auth.user.name || auth.user.email,
+      email: auth.user.email,
+      unitSystem: auth.user.unitSystem,
+      workspace: current ? { name: current.name, role: current.role, plan: current.plan } : null,
+    },
+  };
+}
 
 export const meta: Route.MetaFunction = () => [
   { title: "Dutymark — pump selection and system curves" },
@@ -73,6 +125,7 @@ export function Shell({ children }: { children: React.ReactNode }) {
               </NavLink>
             ))}
           </nav>
+          <UserMenu />
         </div>
       </header>
       <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">
@@ -84,6 +137,38 @@ export function Shell({ children }: { children: React.ReactNode }) {
           and a licensed engineer.
         </p>
       </footer>
+    </div>
+  );
+}
+
+function UserMenu() {
+  const d = useRouteLoaderData<typeof loader>("root");
+  const me = d?.me;
+  if (!me) {
+    return (
+      <div className="ml-auto flex gap-2 text-sm">
+        <a href="/signin" className="rounded px-2 py-1 font-semibold text-white">
+          Sign in
+        </a>
+        <a href="/signup" className="rounded bg-white px-2 py-1 font-semibold text-brand-800 no-underline hover:no-underline">
+          Create account
+        </a>
+      </div>
+    );
+  }
+  return (
+    <div className="ml-auto flex items-center gap-3 text-sm">
+      {me.workspace ? (
+        <a href="/workspace" className="text-brand-50" title="Current workspace and your role">
+          {me.workspace.name} · {me.workspace.role}
+        </a>
+      ) : null}
+      <a href="/account" className="font-semibold text-white">
+        {me.name}
+      </a>
+      <Form method="post" action="/signout">
+        <button className="rounded border border-brand-200 px-2 py-0.5 text-brand-50 hover:bg-brand-700">Sign out</button>
+      </Form>
     </div>
   );
 }

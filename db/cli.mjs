@@ -192,8 +192,8 @@ async function start() {
   await mustRun("build", npmBin("react-router"), ["build"], env);
   await startService(
     "app",
-    npmBin("react-router-serve"),
-    ["./build/server/index.js"],
+    process.execPath,
+    ["app/serve.mjs", "build/server/index.js"],
     { ...env, PORT: String(port), HOST: host, NODE_ENV: "production" },
     `http://${host}:${port}/healthz`,
   );
@@ -248,8 +248,8 @@ async function test() {
     await mustRun("build", npmBin("react-router"), ["build"], env);
     await startService(
       "app",
-      npmBin("react-router-serve"),
-      ["./build/server/index.js"],
+      process.execPath,
+      ["app/serve.mjs", "build/server/index.js"],
       { ...env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1" },
       `${appUrl}/healthz`,
     );
@@ -293,7 +293,14 @@ async function dbDown() {
   log("MariaDB asked to stop");
 }
 
-const commands = { start, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
+/** `npm run admin -- …`: the operator commands, on the same database as npm start. */
+async function admin() {
+  const env = await prepare(process.env.DB_NAME ?? "dutymark", { keepDb: true });
+  const code = await run(npmBin("tsx"), ["db/admin.ts", ...process.argv.slice(3)], env);
+  process.exit(code);
+}
+
+const commands = { admin, start, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
 if (!commands[cmd]) {
   log(`unknown command ${cmd}; one of ${Object.keys(commands).join(", ")}`);
   process.exit(2);

@@ -46,6 +46,7 @@ export const users = mysqlTable(
     passwordHash: varchar("password_hash", { length: 255 }).notNull(),
     emailVerified: boolean("email_verified").notNull().default(false),
     unitSystem: mysqlEnum("unit_system", ["SI", "US"]).notNull().default("SI"),
+    currentWorkspaceId: ref("current_workspace_id"),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_uq").on(t.email)],
@@ -59,6 +60,9 @@ export const sessions = mysqlTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
     expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    createdAt: datetime("created_at", { mode: "date" }).notNull(),
+    userAgent: varchar("user_agent", { length: 300 }).notNull().default(""),
+    ipAddress: varchar("ip_address", { length: 64 }).notNull().default(""),
   },
   (t) => [index("sessions_user_idx").on(t.userId)],
 );
@@ -94,4 +98,74 @@ export const outbox = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [index("outbox_unsent_idx").on(t.sentAt)],
+);
+
+/** Single-use, expiring e-mail links (address verification, password reset); only the hash is kept. */
+export const emailTokens = mysqlTable(
+  "email_tokens",
+  {
+    id: id(),
+    userId: varchar("user_id", { length: 40 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    purpose: mysqlEnum("purpose", ["verify", "reset"]).notNull(),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    usedAt: datetime("used_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("email_tokens_hash_uq").on(t.tokenHash), index("email_tokens_user_idx").on(t.userId)],
+);
+
+/** Sign-in attempts, for throttling per account and per address (kept in the database: shared by every app process). */
+export const signInAttempts = mysqlTable(
+  "sign_in_attempts",
+  {
+    id: id(),
+    emailKey: varchar("email_key", { length: 254 }).notNull(),
+    ipAddress: varchar("ip_address", { length: 64 }).notNull(),
+    success: boolean("success").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("sign_in_attempts_email_idx").on(t.emailKey, t.createdAt), index("sign_in_attempts_ip_idx").on(t.ipAddress, t.createdAt)],
+);
+
+export const invitations = mysqlTable(
+  "invitations",
+  {
+    id: id(),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    email: varchar("email", { length: 254 }).notNull(),
+    role: mysqlEnum("role", ROLES).notNull(),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    invitedBy: varchar("invited_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    acceptedAt: datetime("accepted_at", { mode: "date" }),
+    revokedAt: datetime("revoked_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("invitations_hash_uq").on(t.tokenHash), index("invitations_ws_idx").on(t.workspaceId)],
+);
+
+export const apiTokens = mysqlTable(
+  "api_tokens",
+  {
+    id: id(),
+    userId: varchar("user_id", { length: 40 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 80 }).notNull(),
+    prefix: varchar("prefix", { length: 16 }).notNull(),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    scope: mysqlEnum("scope", ["read", "write"]).notNull(),
+    lastUsedAt: datetime("last_used_at", { mode: "date" }),
+    revokedAt: datetime("revoked_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("api_tokens_hash_uq").on(t.tokenHash), index("api_tokens_user_idx").on(t.userId)],
 );

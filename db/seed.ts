@@ -20,6 +20,7 @@ export const DEMO_USERS: { email: string; name: string; workspace: string; role:
   { email: "engineer@kestrel.example", name: "Ravi Patel", workspace: "kestrel", role: "engineer" },
   { email: "distributor@harrow-vell.example", name: "Mina Vell", workspace: "harrow-vell", role: "distributor" },
   { email: "contractor@lowmoor.example", name: "Tom Lowmoor", workspace: "lowmoor", role: "contractor" },
+  { email: "viewer@kestrel.example", name: "Iris Moss", workspace: "kestrel", role: "viewer" },
 ];
 
 export async function seed(): Promise<{ created: number }> {
@@ -38,7 +39,10 @@ export async function seed(): Promise<{ created: number }> {
       let userId = found[0]?.id;
       if (!userId) {
         userId = `demo-${u.email.split("@")[0]}-${u.workspace}`;
-        await tx.insert(users).values({ id: userId, email: u.email, name: u.name, passwordHash, emailVerified: true });
+        const [w] = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, u.workspace));
+        await tx
+          .insert(users)
+          .values({ id: userId, email: u.email, name: u.name, passwordHash, emailVerified: true, currentWorkspaceId: w.id });
         created++;
       }
       const [ws] = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, u.workspace));

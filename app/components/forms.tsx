@@ -1,0 +1,83 @@
+import type { ReactNode } from "react";
+
+export function Field({
+  label,
+  name,
+  type = "text",
+  error,
+  defaultValue,
+  autoComplete,
+  required,
+  unit,
+  hint,
+  ...rest
+}: {
+  label: string;
+  name: string;
+  type?: string;
+  error?: string;
+  defaultValue?: string | number;
+  autoComplete?: string;
+  required?: boolean;
+  unit?: string;
+  hint?: string;
+  [k: string]: unknown;
+}) {
+  const id = `f-${name}`;
+  return (
+    <div className="space-y-1">
+      <label htmlFor={id} className="label">
+        {label}
+        {unit ? <span className="ml-1 font-normal normal-case text-slate-500">({unit})</span> : null}
+      </label>
+      <input
+        id={id}
+        name={name}
+        type={type}
+        defaultValue={defaultValue}
+        autoComplete={autoComplete}
+        required={required}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-err` : hint ? `${id}-hint` : undefined}
+        className="field"
+        {...rest}
+      />
+      {hint && !error ? (
+        <p id={`${id}-hint`} className="text-xs text-slate-500">
+          {hint}
+        </p>
+      ) : null}
+      {error ? (
+        <p id={`${id}-err`} className="text-sm text-fail" role="alert">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+export function FormError({ error }: { error?: string }) {
+  if (!error) return null;
+  return (
+    <p className="rounded-md border border-fail bg-fail-soft px-3 py-2 text-sm text-fail" role="alert">
+      {error}
+    </p>
+  );
+}
+
+export function Notice({ children }: { children: ReactNode }) {
+  return (
+    <p className="rounded-md border border-brand-200 bg-brand-50 px-3 py-2 text-sm text-brand-900" role="status">
+      {children}
+    </p>
+  );
+}
+
+export function Card({ title, children, narrow }: { title: string; children: ReactNode; narrow?: boolean }) {
+  return (
+    <section className={`panel ${narrow ? "mx-auto max-w-md" : ""}`}>
+      <h1 className="mb-4 text-2xl font-bold text-brand-900">{title}</h1>
+      {children}
+    </section>
+  );
+}

@@ -1,0 +1,317 @@
+// Accounts: sign-up, address verification, password reset, workspaces, invitations, API tokens.
+// Every multi-row write runs in one transaction (withTransaction).
+import { and, eq, gt, isNull, ne, count } from "drizzle-orm";
+import { db, withTransaction, type Db } from "@db/client.server";
+import { apiTokens, emailTokens, invitations, memberships, sessions, users, workspaces } from "@db/schema";
+import { hashPassword, normaliseEmail } from "./auth.server";
+import { hashSecret, newSecret } from "./tokens.server";
+import { sendMail } from "./mail.server";
+import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "./mail-templates";
+import type { Role } from "./permissions";
+
+export const EMAIL_TOKEN_TTL = { verify: 48 * 60, reset: 30 } as const; // minutes
+export const INVITE_TTL_DAYS = 14;
+
+export function appUrl(): string {
+  return (process.env.APP_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
+}
+
+export function slugify(name: string): string {
+  const s = name
+    .toLowerCase()
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60);
+  return s || "workspace";
+}
+
+async function uniqueSlug(tx: Db, name: string): Promise<string> {
+  const base = slugify(name);
+  for (let i = 0; i < 50; i++) {
+    const slug = i === 0 ? base : `${base}-${i + 1}`;
+    const found = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, slug));
+    if (found.length === 0) return slug;
+  }
+  return `${base}-${newSecret(4).toLowerCase()}`;
+}
+
+/** Sent to the owner of an address when someone tries to sign up with it again. */
+function accountExistsMail(signInUrl: string, resetUrl: string) {
+  const text = `Hello,\n\nSomeone tried to create a Dutymark account with this address, which already has one.\nSign in: ${signInUrl}\nForgot the password? ${resetUrl}\n\nIf it was not you, nothing has changed and you can ignore this message.\n`;
+  const html = `<p>Hello,</p><p>Someone tried to create a Dutymark account with this address, which already has one.</p><p><a href="${escapeHtml(signInUrl)}">Sign in</a> · <a href="${escapeHtml(resetUrl)}">Choose a new password</a></p><p>If it was not you, nothing has changed and you can ignore this message.</p>`;
+  return { subject: "You already have a Dutymark account", text, html };
+}
+
+const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
+
+export function newUserId(): string {
+  return `u_${newSecret(15)}`;
+}
+
+export type SignUpResult = { ok: true; userId: string } | { ok: false; reason: "exists" };
+
+/** Creates the user and, when a name is given, a workspace they administer; sends the verification mail. */
+export async function signUp(input: { email: string; password: string; name: string; workspaceName?: string }): Promise<SignUpResult> {
+  const email = normaliseEmail(input.email);
+  const passwordHash = await hashPassword(input.password);
+  const userId = newUserId();
+  const created = await withTransaction(async (tx) => {
+    const exists = await tx.select({ id: users.id }).from(users).where(eq(users.email, email));
+    if (exists.length) return false;
+    await tx.insert(users).values({ id: userId, email, name: input.name.trim(), passwordHash });
+    if (input.workspaceName?.trim()) {
+      const slug = await uniqueSlug(tx, input.workspaceName);
+      const [{ id: wsId }] = await tx.insert(workspaces).values({ name: input.workspaceName.trim(), slug }).$returningId();
+      await tx.insert(memberships).values({ workspaceId: wsId, userId, role: "admin" });
+      await tx.update(users).set({ currentWorkspaceId: wsId }).where(eq(users.id, userId));
+    }
+    return true;
+  });
+  if (!created) {
+    // Tell the owner of the address, not the person at the form.
+    await sendMail({ to: email, ...accountExistsMail(`${appUrl()}/signin`, `${appUrl()}/forgot`) });
+    return { ok: false, reason: "exists" };
+  }
+  await sendVerification(userId);
+  return { ok: true, userId };
+}
+
+async function issueEmailToken(userId: string, purpose: "verify" | "reset"): Promise<string> {
+  const secret = newSecret();
+  await db()
+    .insert(emailTokens)
+    .values({
+      userId,
+      purpose,
+      tokenHash: hashSecret(secret),
+      expiresAt: new Date(Date.now() + EMAIL_TOKEN_TTL[purpose] * 60_000),
+    });
+  return secret;
+}
+
+export async function sendVerification(userId: string): Promise<void> {
+  const [u] = await db().select().from(users).where(eq(users.id, userId));
+  if (!u || u.emailVerified) return;
+  const secret = await issueEmailToken(userId, "verify");
+  await sendMail({
+    to: u.email,
+    ...verifyAddressMail({ name: u.name, link: `${appUrl()}/verify?token=${secret}`, expiresInHours: EMAIL_TOKEN_TTL.verify / 60 }),
+  });
+}
+
+/** Consumes a single-use, unexpired token of `purpose`; returns its user id or null. */
+async function consumeEmailToken(tx: Db, secret: string, purpose: "verify" | "reset"): Promise<string | null> {
+  if (!secret || secret.length > 200) return null;
+  const [t] = await tx
+    .select()
+    .from(emailTokens)
+    .where(and(eq(emailTokens.tokenHash, hashSecret(secret)), eq(emailTokens.purpose, purpose)));
+  if (!t || t.usedAt || t.expiresAt <= new Date()) return null;
+  const r = await tx
+    .update(emailTokens)
+    .set({ usedAt: new Date() })
+    .where(and(eq(emailTokens.id, t.id), isNull(emailTokens.usedAt)));
+  return affected(r) === 1 ? t.userId : null;
+}
+
+export async function verifyEmail(secret: string): Promise<boolean> {
+  return withTransaction(async (tx) => {
+    const userId = await consumeEmailToken(tx, secret, "verify");
+    if (!userId) return false;
+    await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
+    return true;
+  });
+}
+
+/** Always behaves the same whether or not the address has an account. */
+export async function requestPasswordReset(emailRaw: string): Promise<void> {
+  const email = normaliseEmail(emailRaw);
+  const [u] = await db().select({ id: users.id, email: users.email }).from(users).where(eq(users.email, email));
+  if (!u) return;
+  const secret = await issueEmailToken(u.id, "reset");
+  await sendMail({
+    to: u.email,
+    ...passwordResetMail({ link: `${appUrl()}/reset?token=${secret}`, expiresInMinutes: EMAIL_TOKEN_TTL.reset }),
+  });
+}
+
+export async function resetPassword(secret: string, password: string): Promise<boolean> {
+  const passwordHash = await hashPassword(password);
+  return withTransaction(async (tx) => {
+    const userId = await consumeEmailToken(tx, secret, "reset");
+    if (!userId) return false;
+    await tx.update(users).set({ passwordHash, emailVerified: true }).where(eq(users.id, userId));
+    // Every other device is signed out after a reset.
+    await tx.delete(sessions).where(eq(sessions.userId, userId));
+    return true;
+  });
+}
+
+export async function createWorkspace(userId: string, name: string): Promise<number> {
+  return withTransaction(async (tx) => {
+    const slug = await uniqueSlug(tx, name);
+    const [{ id }] = await tx.insert(workspaces).values({ name: name.trim(), slug }).$returningId();
+    await tx.insert(memberships).values({ workspaceId: id, userId, role: "admin" });
+    await tx.update(users).set({ currentWorkspaceId: id }).where(eq(users.id, userId));
+    return id;
+  });
+}
+
+export async function renameWorkspace(workspaceId: number, name: string): Promise<void> {
+  await db().update(workspaces).set({ name: name.trim() }).where(eq(workspaces.id, workspaceId));
+}
+
+export async function listMembers(workspaceId: number) {
+  return db()
+    .select({ id: memberships.id, userId: users.id, email: users.email, name: users.name, role: memberships.role, since: memberships.createdAt })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.workspaceId, workspaceId))
+    .orderBy(users.email);
+}
+
+export async function listInvitations(workspaceId: number) {
+  return db()
+    .select({ id: invitations.id, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt, createdAt: invitations.createdAt })
+    .from(invitations)
+    .where(and(eq(invitations.workspaceId, workspaceId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, new Date())));
+}
+
+export async function invite(input: { workspaceId: number; workspaceName: string; inviterId: string; inviterName: string; email: string; role: Role }) {
+  const secret = newSecret();
+  const email = normaliseEmail(input.email);
+  await db()
+    .insert(invitations)
+    .values({
+      workspaceId: input.workspaceId,
+      email,
+      role: input.role,
+      tokenHash: hashSecret(secret),
+      invitedBy: input.inviterId,
+      expiresAt: new Date(Date.now() + INVITE_TTL_DAYS * 86_400_000),
+    });
+  await sendMail({
+    to: email,
+    ...workspaceInviteMail({
+      inviterName: input.inviterName || "A colleague",
+      workspaceName: input.workspaceName,
+      role: input.role,
+      link: `${appUrl()}/invite/${secret}`,
+      expiresInDays: INVITE_TTL_DAYS,
+    }),
+  });
+  return secret;
+}
+
+export async function revokeInvitation(workspaceId: number, invitationId: number): Promise<boolean> {
+  const r = await db()
+    .update(invitations)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invitations.id, invitationId), eq(invitations.workspaceId, workspaceId)));
+  return affected(r) === 1;
+}
+
+export async function findInvitation(secret: string) {
+  if (!secret || secret.length > 200) return null;
+  const [row] = await db()
+    .select({ inv: invitations, workspaceName: workspaces.name })
+    .from(invitations)
+    .innerJoin(workspaces, eq(workspaces.id, invitations.workspaceId))
+    .where(eq(invitations.tokenHash, hashSecret(secret)));
+  if (!row || row.inv.acceptedAt || row.inv.revokedAt || row.inv.expiresAt <= new Date()) return null;
+  return row;
+}
+
+/** The signed-in user joins with the invited role; the invitation is used up. */
+export async function acceptInvitation(secret: string, userId: string): Promise<{ workspaceId: number } | null> {
+  return withTransaction(async (tx) => {
+    const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashSecret(secret)));
+    if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt <= new Date()) return null;
+    const r = await tx.update(invitations).set({ acceptedAt: new Date() }).where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt)));
+    if (affected(r) !== 1) return null;
+    const existing = await tx
+      .select({ id: memberships.id })
+      .from(memberships)
+      .where(and(eq(memberships.workspaceId, inv.workspaceId), eq(memberships.userId, userId)));
+    if (existing.length) await tx.update(memberships).set({ role: inv.role }).where(eq(memberships.id, existing[0].id));
+    else await tx.insert(memberships).values({ workspaceId: inv.workspaceId, userId, role: inv.role });
+    // Whoever opened the link from their mailbox has shown they read that address.
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    if (u && u.email === inv.email) await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
+    await tx.update(users).set({ currentWorkspaceId: inv.workspaceId }).where(eq(users.id, userId));
+    return { workspaceId: inv.workspaceId };
+  });
+}
+
+async function adminCount(tx: Db, workspaceId: number): Promise<number> {
+  const [r] = await tx
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.role, "admin")));
+  return Number(r?.n ?? 0);
+}
+
+export type MemberChange = "ok" | "not-found" | "last-admin";
+
+/** Changes a member's role; a workspace always keeps at least one admin. */
+export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
+  return withTransaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    if (!m) return "not-found";
+    if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
+    await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
+    return "ok";
+  });
+}
+
+export async function removeMember(workspaceId: number, membershipId: number): Promise<MemberChange> {
+  return withTransaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    if (!m) return "not-found";
+    if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
+    await tx.delete(memberships).where(eq(memberships.id, m.id));
+    await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
+    return "ok";
+  });
+}
+
+export const API_TOKEN_PREFIX = "dmk_";
+
+/** A new API token: returned once, stored hashed. */
+export async function createApiToken(input: { userId: string; workspaceId: number; name: string; scope: "read" | "write" }) {
+  const secret = `${API_TOKEN_PREFIX}${newSecret(30)}`;
+  const [{ id }] = await db()
+    .insert(apiTokens)
+    .values({ ...input, prefix: secret.slice(0, 10), tokenHash: hashSecret(secret) })
+    .$returningId();
+  return { id, token: secret };
+}
+
+export async function listApiTokens(userId: string, workspaceId: number) {
+  return db()
+    .select({ id: apiTokens.id, name: apiTokens.name, prefix: apiTokens.prefix, scope: apiTokens.scope, lastUsedAt: apiTokens.lastUsedAt, createdAt: apiTokens.createdAt })
+    .from(apiTokens)
+    .where(and(eq(apiTokens.userId, userId), eq(apiTokens.workspaceId, workspaceId), isNull(apiTokens.revokedAt)));
+}
+
+export async function revokeApiToken(userId: string, tokenId: number): Promise<boolean> {
+  const r = await db()
+    .update(apiTokens)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
+  return affected(r) === 1;
+}
+
+export async function updateProfile(userId: string, input: { name: string; unitSystem: "SI" | "US" }) {
+  await db().update(users).set(input).where(eq(users.id, userId));
+}
+
+export async function otherMembersCount(workspaceId: number, userId: string) {
+  const [r] = await db()
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.workspaceId, workspaceId), ne(memberships.userId, userId)));
+  return Number(r?.n ?? 0);
+}

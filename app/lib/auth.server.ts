@@ -1,0 +1,152 @@
+// Sign-in with lucia v3 (sessions in MariaDB through Drizzle) and argon2id password hashes.
+import { Lucia, TimeSpan, type Session, type User } from "lucia";
+import { DrizzleMySQLAdapter } from "@lucia-auth/adapter-drizzle";
+import { hash, verify } from "@node-rs/argon2";
+import { and, count, eq, gt } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { sessions, signInAttempts, users } from "@db/schema";
+
+let luciaInstance: ReturnType<typeof makeLucia> | null = null;
+
+export function cookieSecure(): boolean {
+  if (process.env.COOKIE_SECURE) return process.env.COOKIE_SECURE === "1";
+  return (process.env.APP_URL ?? "").startsWith("https://");
+}
+
+function makeLucia() {
+  const adapter = new DrizzleMySQLAdapter(db() as never, sessions, users);
+  return new Lucia(adapter, {
+    sessionExpiresIn: new TimeSpan(30, "d"),
+    sessionCookie: {
+      name: "dm_session",
+      expires: false,
+      attributes: { secure: cookieSecure(), sameSite: "lax" },
+    },
+    getUserAttributes: (a) => ({
+      email: a.email,
+      name: a.name,
+      emailVerified: Boolean(a.emailVerified),
+      unitSystem: a.unitSystem,
+      currentWorkspaceId: a.currentWorkspaceId,
+    }),
+    getSessionAttributes: (a) => ({ createdAt: a.createdAt, userAgent: a.userAgent, ipAddress: a.ipAddress }),
+  });
+}
+
+export function lucia() {
+  if (!luciaInstance) luciaInstance = makeLucia();
+  return luciaInstance;
+}
+
+declare module "lucia" {
+  interface Register {
+    Lucia: ReturnType<typeof makeLucia>;
+    DatabaseUserAttributes: {
+      email: string;
+      name: string;
+      emailVerified: boolean | number;
+      unitSystem: "SI" | "US";
+      currentWorkspaceId: number | null;
+    };
+    DatabaseSessionAttributes: { createdAt: Date; userAgent: string; ipAddress: string };
+  }
+}
+
+// argon2id with the library's defaults (m = 19 MiB, t = 2, p = 1: the OWASP minimum, from memory).
+export const hashPassword = (password: string) => hash(password);
+export const verifyPassword = (stored: string, password: string) => verify(stored, password).catch(() => false);
+
+/** A hash of a random password: unknown e-mails still cost one verify, so timing says nothing. */
+let dummyHash: Promise<string> | null = null;
+const dummy = () => (dummyHash ??= hash("no-such-account-" + Math.random()));
+
+export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
+export function clientIp(request: Request): string {
+  return (request.headers.get(CLIENT_IP_HEADER) ?? "").slice(0, 64);
+}
+
+export const normaliseEmail = (email: string) => email.trim().toLowerCase();
+
+export const THROTTLE = { windowMinutes: 15, perAccount: 5, perAddress: 30 };
+
+async function recentFailures(column: "email" | "ip", key: string): Promise<number> {
+  const since = new Date(Date.now() - THROTTLE.windowMinutes * 60_000);
+  const col = column === "email" ? signInAttempts.emailKey : signInAttempts.ipAddress;
+  const [row] = await db()
+    .select({ n: count() })
+    .from(signInAttempts)
+    .where(and(eq(col, key), eq(signInAttempts.success, false), gt(signInAttempts.createdAt, since)));
+  return Number(row?.n ?? 0);
+}
+
+export type SignInResult =
+  | { ok: true; user: { id: string; emailVerified: boolean } }
+  | { ok: false; reason: "invalid" | "throttled" };
+
+/**
+ * Checks e-mail and password with throttling per account and per address (kept in the database so
+ * every app process sees the same counts). The reasons never say whether the e-mail has an account.
+ */
+export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<SignInResult> {
+  const email = normaliseEmail(emailRaw);
+  if ((await recentFailures("email", email)) >= THROTTLE.perAccount || (ip && (await recentFailures("ip", ip)) >= THROTTLE.perAddress)) {
+    return { ok: false, reason: "throttled" };
+  }
+  const [u] = await db()
+    .select({ id: users.id, passwordHash: users.passwordHash, emailVerified: users.emailVerified })
+    .from(users)
+    .where(eq(users.email, email));
+  const good = u ? await verifyPassword(u.passwordHash, password) : (await verifyPassword(await dummy(), password), false);
+  await db().insert(signInAttempts).values({ emailKey: email, ipAddress: ip, success: good });
+  if (!good || !u) return { ok: false, reason: "invalid" };
+  return { ok: true, user: { id: u.id, emailVerified: Boolean(u.emailVerified) } };
+}
+
+/** A new session on every sign-in (no fixation); returns the Set-Cookie value. */
+export async function startSession(userId: string, request: Request): Promise<string> {
+  const session = await lucia().createSession(userId, {
+    createdAt: new Date(),
+    userAgent: (request.headers.get("user-agent") ?? "").slice(0, 300),
+    ipAddress: clientIp(request),
+  });
+  return lucia().createSessionCookie(session.id).serialize();
+}
+
+export type Auth = { user: User; session: Session; refreshCookie?: string };
+
+const cache = new WeakMap<Request, Promise<Auth | null>>();
+
+/** The signed-in user of this request, or null. Memoised per request. */
+export function getAuth(request: Request): Promise<Auth | null> {
+  let p = cache.get(request);
+  if (!p) {
+    p = (async () => {
+      const cookie = request.headers.get("cookie") ?? "";
+      const sessionId = lucia().readSessionCookie(cookie);
+      if (!sessionId) return null;
+      const { session, user } = await lucia().validateSession(sessionId);
+      if (!session || !user) return null;
+      return { session, user, refreshCookie: session.fresh ? lucia().createSessionCookie(session.id).serialize() : undefined };
+    })();
+    cache.set(request, p);
+  }
+  return p;
+}
+
+export async function endSession(request: Request): Promise<string> {
+  const auth = await getAuth(request);
+  if (auth) await lucia().invalidateSession(auth.session.id);
+  return lucia().createBlankSessionCookie().serialize();
+}
+
+export async function listSessions(userId: string) {
+  const rows = await db().select().from(sessions).where(eq(sessions.userId, userId));
+  return rows.filter((s) => s.expiresAt > new Date()).sort((a, b) => +b.createdAt - +a.createdAt);
+}
+
+export async function revokeSession(userId: string, sessionId: string): Promise<boolean> {
+  const r = (await db()
+    .delete(sessions)
+    .where(and(eq(sessions.userId, userId), eq(sessions.id, sessionId)))) as unknown as [{ affectedRows: number }];
+  return (r?.[0]?.affectedRows ?? 0) > 0;
+}

@@ -1,0 +1,21 @@
+// Cross-site request forgery: every state-changing request must come from our own origin.
+// Browsers send Origin on POST (and Sec-Fetch-Site); a request with neither and a session cookie
+// is refused. Bearer-token API calls carry no ambient credentials and are exempt, as is the
+// Stripe webhook, which is verified by its signature instead.
+const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
+const EXEMPT_PATHS = ["/api/stripe/webhook"];
+
+export function csrfRefusal(request: Request): string | null {
+  if (SAFE.has(request.method.toUpperCase())) return null;
+  const url = new URL(request.url);
+  if (EXEMPT_PATHS.includes(url.pathname)) return null;
+  const authz = request.headers.get("authorization") ?? "";
+  if (/^bearer\s+/i.test(authz)) return null;
+  const allowed = new Set([url.origin]);
+  if (process.env.APP_URL) allowed.add(new URL(process.env.APP_URL).origin);
+  const origin = request.headers.get("origin");
+  if (origin) return allowed.has(origin) ? null : `Cross-site request refused (origin ${origin}).`;
+  const site = request.headers.get("sec-fetch-site");
+  if (site) return site === "same-origin" || site === "none" ? null : `Cross-site request refused (${site}).`;
+  return "Request refused: it carries no Origin header, so it cannot be shown to come from this site.";
+}

@@ -1,0 +1,115 @@
+// Throwing guards, called first in every loader and action. The server decides; the UI only hides.
+import { data, redirect } from "react-router";
+import { and, asc, eq, isNull } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { apiTokens, memberships, users, workspaces } from "@db/schema";
+import { getAuth, type Auth } from "./auth.server";
+import { can, READ_ONLY_PERMISSIONS, type Permission, type Role } from "./permissions";
+import { hashSecret } from "./tokens.server";
+import { forbidden, unauthorized } from "./problem.server";
+
+export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
+export type Member = Auth & {
+  workspace: WorkspaceInfo;
+  role: Role;
+  workspaces: (WorkspaceInfo & { role: Role })[];
+};
+
+function signInRedirect(request: Request): never {
+  const u = new URL(request.url);
+  const next = u.pathname + u.search;
+  throw redirect(`/signin?next=${encodeURIComponent(next)}`);
+}
+
+/** Signed in, or a redirect to the sign-in page that comes back here. */
+export async function requireUser(request: Request): Promise<Auth> {
+  const auth = await getAuth(request);
+  if (!auth) signInRedirect(request);
+  return auth;
+}
+
+export async function workspacesOf(userId: string) {
+  return db()
+    .select({ id: workspaces.id, name: workspaces.name, slug: workspaces.slug, plan: workspaces.plan, role: memberships.role })
+    .from(memberships)
+    .innerJoin(workspaces, eq(memberships.workspaceId, workspaces.id))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(workspaces.name));
+}
+
+/** The member's current workspace and role (the user's choice, else the first by name). */
+export async function currentMembership(auth: Auth) {
+  const list = await workspacesOf(auth.user.id);
+  const current = list.find((w) => w.id === auth.user.currentWorkspaceId) ?? list[0] ?? null;
+  return { list, current };
+}
+
+/**
+ * Signed in, a member of a workspace, and (when given) allowed `permission` there.
+ * Not signed in → redirect to sign-in; no workspace → redirect to create one; lacking permission → 403.
+ */
+export async function requireMember(request: Request, permission?: Permission): Promise<Member> {
+  const auth = await requireUser(request);
+  const { list, current } = await currentMembership(auth);
+  if (!current) throw redirect("/workspace/new");
+  const { role, ...workspace } = current;
+  if (permission && !can(role, permission)) {
+    throw data(`Your role (${role}) in ${workspace.name} does not allow this.`, { status: 403 });
+  }
+  return { ...auth, workspace, role, workspaces: list };
+}
+
+export type ApiCaller = {
+  userId: string;
+  workspace: WorkspaceInfo;
+  role: Role;
+  via: "token" | "session";
+  scope: "read" | "write";
+};
+
+/**
+ * For /api/v1/*: a Bearer token (or, from our own pages, the session cookie). Without valid
+ * credentials → 401 problem+json; valid but lacking scope or role → 403 problem+json.
+ */
+export async function requireApi(request: Request, permission: Permission): Promise<ApiCaller> {
+  const authz = request.headers.get("authorization");
+  let caller: ApiCaller | null = null;
+  if (authz) {
+    const m = /^Bearer\s+([A-Za-z0-9_\-.]{10,200})$/i.exec(authz.trim());
+    if (!m) throw unauthorized("Malformed Authorization header.");
+    const [row] = await db()
+      .select({
+        id: apiTokens.id,
+        userId: apiTokens.userId,
+        scope: apiTokens.scope,
+        role: memberships.role,
+        ws: { id: workspaces.id, name: workspaces.name, slug: workspaces.slug, plan: workspaces.plan },
+      })
+      .from(apiTokens)
+      .innerJoin(memberships, and(eq(memberships.userId, apiTokens.userId), eq(memberships.workspaceId, apiTokens.workspaceId)))
+      .innerJoin(workspaces, eq(workspaces.id, apiTokens.workspaceId))
+      .where(and(eq(apiTokens.tokenHash, hashSecret(m[1])), isNull(apiTokens.revokedAt)));
+    if (!row) throw unauthorized("Unknown or revoked API token.");
+    await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
+    caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope };
+  } else {
+    const auth = await getAuth(request);
+    if (!auth) throw unauthorized();
+    const { current } = await currentMembership(auth);
+    if (!current) throw forbidden("You are not a member of any workspace.");
+    const { role, ...workspace } = current;
+    caller = { userId: auth.user.id, workspace, role, via: "session", scope: "write" };
+  }
+  if (caller.scope === "read" && !READ_ONLY_PERMISSIONS.has(permission)) {
+    throw forbidden("This token has read scope; this call needs a read-write token.");
+  }
+  if (!can(caller.role, permission)) throw forbidden(`Role ${caller.role} may not do this (${permission}).`);
+  return caller;
+}
+
+export async function setCurrentWorkspace(userId: string, workspaceId: number): Promise<boolean> {
+  const list = await workspacesOf(userId);
+  if (!list.some((w) => w.id === workspaceId)) return false;
+  await db().update(users).set({ currentWorkspaceId: workspaceId }).where(eq(users.id, userId));
+  return true;
+}

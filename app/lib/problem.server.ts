@@ -1,0 +1,17 @@
+// RFC 9457 problem details for API routes.
+export type Problem = { type?: string; title: string; status: number; detail?: string; [k: string]: unknown };
+
+export function problem(p: Problem, headers?: HeadersInit): Response {
+  const body = { type: p.type ?? "about:blank", ...p };
+  const h = new Headers(headers);
+  h.set("Content-Type", "application/problem+json");
+  h.set("Cache-Control", "no-store");
+  return new Response(JSON.stringify(body), { status: p.status, headers: h });
+}
+
+export const unauthorized = (detail = "A valid API token is required: Authorization: Bearer <token>.") =>
+  problem({ title: "Unauthorized", status: 401, detail }, { "WWW-Authenticate": 'Bearer realm="dutymark"' });
+export const forbidden = (detail = "This token or role may not do this.") => problem({ title: "Forbidden", status: 403, detail });
+export const notFound = (detail = "No such resource in this workspace.") => problem({ title: "Not Found", status: 404, detail });
+export const badRequest = (detail: string, extra?: Record<string, unknown>) =>
+  problem({ title: "Bad Request", status: 400, detail, ...extra });

@@ -1,0 +1,209 @@
+import * as v from "valibot";
+import { Form, useActionData, useLoaderData, useSearchParams } from "react-router";
+import type { Route } from "./+types/account";
+import { listSessions, revokeSession } from "~/lib/auth.server";
+import { createApiToken, listApiTokens, revokeApiToken, sendVerification, updateProfile } from "~/lib/accounts.server";
+import { requireMember } from "~/lib/guards.server";
+import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { Field, FormError, Notice } from "~/components/forms";
+
+export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const m = await requireMember(request);
+  const [devices, tokens] = await Promise.all([listSessions(m.user.id), listApiTokens(m.user.id, m.workspace.id)]);
+  return {
+    user: { email: m.user.email, name: m.user.name, emailVerified: m.user.emailVerified, unitSystem: m.user.unitSystem },
+    workspace: m.workspace,
+    devices: devices.map((d) => ({
+      id: d.id,
+      current: d.id === m.session.id,
+      createdAt: d.createdAt.toISOString(),
+      userAgent: d.userAgent,
+      ipAddress: d.ipAddress,
+    })),
+    tokens: tokens.map((t) => ({ ...t, lastUsedAt: t.lastUsedAt?.toISOString() ?? null, createdAt: t.createdAt.toISOString() })),
+  };
+}
+
+const Intent = v.variant("intent", [
+  v.object({ intent: v.literal("profile"), name: Name("your name"), unitSystem: v.picklist(["SI", "US"], "Pick SI or US units.") }),
+  v.object({ intent: v.literal("resend") }),
+  v.object({ intent: v.literal("revoke-device"), sessionId: v.pipe(v.string(), v.maxLength(255)) }),
+  v.object({ intent: v.literal("create-token"), name: Name("a token name", 80), scope: v.picklist(["read", "write"], "Pick a scope.") }),
+  v.object({ intent: v.literal("revoke-token"), tokenId: IdField }),
+]);
+
+export async function action({ request }: Route.ActionArgs) {
+  const m = await requireMember(request);
+  const r = await readForm(request, Intent);
+  if (!r.ok) return invalid(r.errors);
+  const f = r.value;
+  switch (f.intent) {
+    case "profile":
+      await updateProfile(m.user.id, { name: f.name, unitSystem: f.unitSystem });
+      return { notice: "Profile saved." };
+    case "resend":
+      await sendVerification(m.user.id);
+      return { notice: "A new confirmation link is on its way." };
+    case "revoke-device":
+      if (!(await revokeSession(m.user.id, f.sessionId))) return invalid({ _form: "No such device." }, 404);
+      return { notice: "That device is signed out." };
+    case "create-token": {
+      const { token } = await createApiToken({ userId: m.user.id, workspaceId: m.workspace.id, name: f.name, scope: f.scope });
+      return { notice: "Token created. Copy it now: it is shown only this once.", token };
+    }
+    case "revoke-token":
+      if (!(await revokeApiToken(m.user.id, f.tokenId))) return invalid({ _form: "No such token." }, 404);
+      return { notice: "Token revoked." };
+  }
+}
+
+const fmt = (iso: string | null) => (iso ? new Date(iso).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never");
+
+export default function Account() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string; token?: string } | undefined;
+  const [params] = useSearchParams();
+  const errors = a?.errors ?? {};
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-bold text-brand-900">Your account</h1>
+      {params.get("welcome") ? <Notice>Welcome to Dutymark. We sent a link to {d.user.email} to confirm the address.</Notice> : null}
+      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      <FormError error={errors._form} />
+      {a?.token ? (
+        <div className="panel border-duty">
+          <p className="text-sm font-semibold">New API token (shown once):</p>
+          <code data-testid="new-token" className="mt-1 block break-all rounded bg-slate-100 p-2 text-sm">
+            {a.token}
+          </code>
+        </div>
+      ) : null}
+      <section className="panel space-y-3">
+        <h2 className="text-lg font-semibold">Profile</h2>
+        <p className="text-sm">
+          {d.user.email} ·{" "}
+          {d.user.emailVerified ? (
+            <span className="text-brand-700">address confirmed</span>
+          ) : (
+            <span className="text-duty">address not confirmed yet</span>
+          )}
+        </p>
+        {!d.user.emailVerified ? (
+          <Form method="post">
+            <button className="btn-quiet" name="intent" value="resend">
+              Send the confirmation link again
+            </button>
+          </Form>
+        ) : null}
+        <Form method="post" className="grid max-w-lg gap-3">
+          <input type="hidden" name="intent" value="profile" />
+          <Field label="Name" name="name" defaultValue={d.user.name} error={errors.name} required />
+          <div>
+            <label className="label" htmlFor="f-units">
+              Units
+            </label>
+            <select id="f-units" name="unitSystem" defaultValue={d.user.unitSystem} className="field">
+              <option value="SI">SI — m³/h, m, kPa, kW</option>
+              <option value="US">US — gpm, ft, psi, hp</option>
+            </select>
+          </div>
+          <div>
+            <button className="btn">Save profile</button>
+          </div>
+        </Form>
+      </section>
+      <section className="panel">
+        <h2 className="text-lg font-semibold">Signed-in devices</h2>
+        <table className="mt-2 w-full text-sm">
+          <thead className="text-left text-slate-600">
+            <tr>
+              <th className="py-1">Device</th>
+              <th>Address</th>
+              <th>Signed in</th>
+              <th />
+            </tr>
+          </thead>
+          <tbody>
+            {d.devices.map((dev) => (
+              <tr key={dev.id} className="border-t border-slate-100">
+                <td className="max-w-xs truncate py-1">{dev.userAgent || "unknown"}</td>
+                <td>{dev.ipAddress || "—"}</td>
+                <td>{fmt(dev.createdAt)}</td>
+                <td className="text-right">
+                  {dev.current ? (
+                    <span className="text-slate-500">this device</span>
+                  ) : (
+                    <Form method="post">
+                      <input type="hidden" name="sessionId" value={dev.id} />
+                      <button className="btn-quiet" name="intent" value="revoke-device">
+                        Sign out
+                      </button>
+                    </Form>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+      <section className="panel space-y-3">
+        <h2 className="text-lg font-semibold">API tokens for {d.workspace.name}</h2>
+        <p className="text-sm text-slate-600">
+          For scripts calling <code>/api/v1/…</code> with <code>Authorization: Bearer &lt;token&gt;</code>. Stored hashed; shown only when
+          created.
+        </p>
+        {d.tokens.length ? (
+          <table className="w-full text-sm">
+            <thead className="text-left text-slate-600">
+              <tr>
+                <th className="py-1">Name</th>
+                <th>Starts with</th>
+                <th>Scope</th>
+                <th>Last used</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {d.tokens.map((t) => (
+                <tr key={t.id} className="border-t border-slate-100">
+                  <td className="py-1">{t.name}</td>
+                  <td>
+                    <code>{t.prefix}…</code>
+                  </td>
+                  <td>{t.scope === "write" ? "read-write" : "read"}</td>
+                  <td>{fmt(t.lastUsedAt)}</td>
+                  <td className="text-right">
+                    <Form method="post">
+                      <input type="hidden" name="tokenId" value={t.id} />
+                      <button className="btn-quiet" name="intent" value="revoke-token">
+                        Revoke
+                      </button>
+                    </Form>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        ) : (
+          <p className="text-sm text-slate-600">No tokens yet.</p>
+        )}
+        <Form method="post" className="flex flex-wrap items-end gap-3">
+          <input type="hidden" name="intent" value="create-token" />
+          <Field label="Token name" name="name" error={errors.name} required />
+          <div>
+            <label className="label" htmlFor="f-scope">
+              Scope
+            </label>
+            <select id="f-scope" name="scope" className="field">
+              <option value="read">read</option>
+              <option value="write">read-write</option>
+            </select>
+          </div>
+          <button className="btn">Create token</button>
+        </Form>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,8 @@
+import { notFound } from "~/lib/problem.server";
+
+export function loader() {
+  return notFound("No API route at this path.");
+}
+export function action() {
+  return notFound("No API route at this path.");
+}

@@ -1,0 +1,72 @@
+import * as v from "valibot";
+import { Form, redirect, useActionData, useSearchParams } from "react-router";
+import type { Route } from "./+types/signup";
+import { getAuth, startSession } from "~/lib/auth.server";
+import { signUp } from "~/lib/accounts.server";
+import { Email, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/forms.server";
+import { Card, Field, FormError, Notice } from "~/components/forms";
+
+export const meta: Route.MetaFunction = () => [{ title: "Create an account · Dutymark" }];
+
+const Schema = v.object({
+  email: Email,
+  name: Name("your name"),
+  password: NewPassword,
+  workspace: v.optional(v.pipe(v.string(), v.trim(), v.maxLength(120, "Keep the workspace name under 120 characters."))),
+  next: v.optional(v.string()),
+});
+
+export async function loader({ request }: Route.LoaderArgs) {
+  if (await getAuth(request)) throw redirect("/");
+  return null;
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const r = await readForm(request, Schema);
+  if (!r.ok) return invalid(r.errors);
+  const next = safeNext(r.value.next, "");
+  const res = await signUp({
+    email: r.value.email,
+    password: r.value.password,
+    name: r.value.name,
+    workspaceName: next.startsWith("/invite/") ? undefined : r.value.workspace || `${r.value.name}'s workspace`,
+  });
+  if (!res.ok) {
+    // Same words whether or not the address already had an account; its owner gets a mail.
+    return { sent: true as const };
+  }
+  const cookie = await startSession(res.userId, request);
+  throw redirect(next || "/account?welcome=1", { headers: { "Set-Cookie": cookie } });
+}
+
+export default function SignUp() {
+  const a = useActionData<typeof action>();
+  const [params] = useSearchParams();
+  const errors = a && "errors" in a ? (a.errors as Record<string, string>) : {};
+  const next = params.get("next") ?? "";
+  const invited = next.startsWith("/invite/");
+  return (
+    <Card title="Create your Dutymark account" narrow>
+      {a && "sent" in a ? (
+        <Notice>Check your inbox: we sent a message to that address with the next step.</Notice>
+      ) : (
+        <Form method="post" className="space-y-3" noValidate>
+          <FormError error={errors._form} />
+          <Field label="E-mail" name="email" type="email" autoComplete="email" defaultValue={params.get("email") ?? undefined} error={errors.email} required />
+          <Field label="Your name" name="name" autoComplete="name" error={errors.name} required />
+          <Field label="Password" name="password" type="password" autoComplete="new-password" error={errors.password} hint="At least 10 characters." required />
+          {invited ? null : (
+            <Field label="Workspace name" name="workspace" hint="Your team or company; you can invite people later." error={errors.workspace} />
+          )}
+          <input type="hidden" name="next" value={next} />
+          <button className="btn w-full justify-center" type="submit">
+            Create account
+          </button>
+          <p className="text-sm">
+            Already have an account? <a href={`/signin${next ? `?next=${encodeURIComponent(next)}` : ""}`}>Sign in</a>
+          </p>
+        </Form>
+      )}
+    </Card>
+  );
+}

@@ -1,0 +1,222 @@
+import * as v from "valibot";
+import { Form, useActionData, useLoaderData } from "react-router";
+import type { Route } from "./+types/workspace";
+import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation } from "~/lib/accounts.server";
+import { requireMember, setCurrentWorkspace } from "~/lib/guards.server";
+import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/permissions";
+import { Email, IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { data } from "react-router";
+import { Field, FormError, Notice } from "~/components/forms";
+
+export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const m = await requireMember(request, "workspace.read");
+  const admin = can(m.role, "members.manage");
+  const [members, invites] = await Promise.all([listMembers(m.workspace.id), admin ? listInvitations(m.workspace.id) : Promise.resolve([])]);
+  return {
+    me: m.user.id,
+    role: m.role,
+    workspace: m.workspace,
+    workspaces: m.workspaces,
+    members: members.map((x) => ({ ...x, since: x.since.toISOString() })),
+    invites: invites.map((i) => ({ ...i, expiresAt: i.expiresAt.toISOString(), createdAt: i.createdAt.toISOString() })),
+  };
+}
+
+const Role = v.picklist(ROLES, "Pick a role.");
+const Intent = v.variant("intent", [
+  v.object({ intent: v.literal("switch"), workspaceId: IdField }),
+  v.object({ intent: v.literal("rename"), name: Name("a workspace name") }),
+  v.object({ intent: v.literal("invite"), email: Email, role: Role }),
+  v.object({ intent: v.literal("revoke-invite"), invitationId: IdField }),
+  v.object({ intent: v.literal("role"), membershipId: IdField, role: Role }),
+  v.object({ intent: v.literal("remove"), membershipId: IdField }),
+]);
+
+const NEEDS: Record<string, Permission> = {
+  switch: "workspace.read",
+  rename: "workspace.rename",
+  invite: "members.manage",
+  "revoke-invite": "members.manage",
+  role: "members.manage",
+  remove: "members.manage",
+};
+
+export async function action({ request }: Route.ActionArgs) {
+  const base = await requireMember(request);
+  const r = await readForm(request, Intent);
+  if (!r.ok) return invalid(r.errors);
+  const f = r.value;
+  if (!can(base.role, NEEDS[f.intent])) throw data(`Your role (${base.role}) in ${base.workspace.name} does not allow this.`, { status: 403 });
+  const ws = base.workspace;
+  switch (f.intent) {
+    case "switch":
+      if (!(await setCurrentWorkspace(base.user.id, f.workspaceId))) return invalid({ _form: "You are not a member of that workspace." }, 404);
+      return { notice: "Workspace switched." };
+    case "rename":
+      await renameWorkspace(ws.id, f.name);
+      return { notice: "Workspace renamed." };
+    case "invite":
+      await invite({ workspaceId: ws.id, workspaceName: ws.name, inviterId: base.user.id, inviterName: base.user.name, email: f.email, role: f.role });
+      return { notice: `Invitation sent to ${f.email}.` };
+    case "revoke-invite":
+      if (!(await revokeInvitation(ws.id, f.invitationId))) return invalid({ _form: "No such invitation." }, 404);
+      return { notice: "Invitation withdrawn." };
+    case "role":
+    case "remove": {
+      const res = f.intent === "role" ? await changeRole(ws.id, f.membershipId, f.role) : await removeMember(ws.id, f.membershipId);
+      if (res === "not-found") return invalid({ _form: "No such member." }, 404);
+      if (res === "last-admin") return invalid({ _form: "A workspace needs at least one admin." }, 409);
+      return { notice: f.intent === "role" ? "Role changed." : "Member removed." };
+    }
+  }
+}
+
+export default function Workspace() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
+  const errors = a?.errors ?? {};
+  const admin = can(d.role, "members.manage");
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-2xl font-bold text-brand-900">{d.workspace.name}</h1>
+        <p className="text-sm text-slate-600">
+          You are <strong>{d.role}</strong> here · plan: <strong>{d.workspace.plan === "network" ? "Network" : "Starter (free)"}</strong> ·{" "}
+          <a href="/workspace/billing">Plan and billing</a>
+        </p>
+      </div>
+      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      <FormError error={errors._form} />
+
+      {d.workspaces.length > 1 ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">Your workspaces</h2>
+          <ul className="mt-2 flex flex-wrap gap-2">
+            {d.workspaces.map((w) => (
+              <li key={w.id}>
+                <Form method="post">
+                  <input type="hidden" name="workspaceId" value={w.id} />
+                  <button name="intent" value="switch" className={w.id === d.workspace.id ? "btn" : "btn-quiet"} disabled={w.id === d.workspace.id}>
+                    {w.name} <span className="font-normal">({w.role})</span>
+                  </button>
+                </Form>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      {can(d.role, "workspace.rename") ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">Name</h2>
+          <Form method="post" className="mt-2 flex flex-wrap items-end gap-3">
+            <input type="hidden" name="intent" value="rename" />
+            <Field label="Workspace name" name="name" defaultValue={d.workspace.name} error={errors.name} required />
+            <button className="btn">Rename</button>
+          </Form>
+        </section>
+      ) : null}
+
+      <section className="panel">
+        <h2 className="text-lg font-semibold">People</h2>
+        <table className="mt-2 w-full text-sm">
+          <thead className="text-left text-slate-600">
+            <tr>
+              <th className="py-1">Name</th>
+              <th>E-mail</th>
+              <th>Role</th>
+              {admin ? <th /> : null}
+            </tr>
+          </thead>
+          <tbody>
+            {d.members.map((mem) => (
+              <tr key={mem.id} className="border-t border-slate-100">
+                <td className="py-1">{mem.name || "—"}</td>
+                <td>{mem.email}</td>
+                <td>
+                  {admin ? (
+                    <Form method="post" className="flex items-center gap-2">
+                      <input type="hidden" name="membershipId" value={mem.id} />
+                      <label className="sr-only" htmlFor={`role-${mem.id}`}>
+                        Role of {mem.email}
+                      </label>
+                      <select id={`role-${mem.id}`} name="role" defaultValue={mem.role} className="field w-auto py-0.5">
+                        {ROLES.map((r) => (
+                          <option key={r} value={r}>
+                            {r}
+                          </option>
+                        ))}
+                      </select>
+                      <button className="btn-quiet py-0.5" name="intent" value="role">
+                        Set
+                      </button>
+                    </Form>
+                  ) : (
+                    mem.role
+                  )}
+                </td>
+                {admin ? (
+                  <td className="text-right">
+                    {mem.userId !== d.me ? (
+                      <Form method="post">
+                        <input type="hidden" name="membershipId" value={mem.id} />
+                        <button className="btn-quiet py-0.5" name="intent" value="remove">
+                          Remove
+                        </button>
+                      </Form>
+                    ) : null}
+                  </td>
+                ) : null}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      {admin ? (
+        <section className="panel space-y-3">
+          <h2 className="text-lg font-semibold">Invite someone</h2>
+          <Form method="post" className="flex flex-wrap items-end gap-3">
+            <input type="hidden" name="intent" value="invite" />
+            <Field label="E-mail" name="email" type="email" error={errors.email} required />
+            <div>
+              <label className="label" htmlFor="f-invite-role">
+                Role
+              </label>
+              <select id="f-invite-role" name="role" className="field" defaultValue="engineer">
+                {ROLES.map((r) => (
+                  <option key={r} value={r}>
+                    {ROLE_LABELS[r]}
+                  </option>
+                ))}
+              </select>
+            </div>
+            <button className="btn">Send invitation</button>
+          </Form>
+          {d.invites.length ? (
+            <ul className="text-sm">
+              {d.invites.map((i) => (
+                <li key={i.id} className="flex items-center justify-between border-t border-slate-100 py-1">
+                  <span>
+                    {i.email} as {i.role} · expires {i.expiresAt.slice(0, 10)}
+                  </span>
+                  <Form method="post">
+                    <input type="hidden" name="invitationId" value={i.id} />
+                    <button className="btn-quiet py-0.5" name="intent" value="revoke-invite">
+                      Withdraw
+                    </button>
+                  </Form>
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </section>
+      ) : null}
+      <p>
+        <a href="/workspace/new">Create another workspace</a>
+      </p>
+    </div>
+  );
+}
