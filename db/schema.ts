@@ -13,7 +13,12 @@ import {
   mysqlEnum,
   boolean,
   text,
+  double,
+  customType,
 } from "drizzle-orm/mysql-core";
+
+/** LONGBLOB (drizzle has no builtin for it); values are Buffers. */
+const longblob = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "longblob" });
 
 export const id = () => bigint("id", { mode: "number", unsigned: true }).autoincrement().primaryKey();
 export const ref = (name: string) => bigint(name, { mode: "number", unsigned: true });
@@ -168,4 +173,123 @@ export const apiTokens = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("api_tokens_hash_uq").on(t.tokenHash), index("api_tokens_user_idx").on(t.userId)],
+);
+
+// ── Pump libraries (issue: vendor CSV import) ───────────────────────────────────────────────
+// A library belongs to a workspace; every import makes a new immutable revision holding its own
+// models, curve sets and points, so selections keep the revision they were made with.
+export const VISIBILITIES = ["private", "workspace", "shared"] as const;
+export type Visibility = (typeof VISIBILITIES)[number];
+
+export const libraries = mysqlTable(
+  "libraries",
+  {
+    id: id(),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 120 }).notNull(),
+    description: varchar("description", { length: 1000 }).notNull().default(""),
+    visibility: mysqlEnum("visibility", VISIBILITIES).notNull().default("private"),
+    currentRevisionId: ref("current_revision_id"),
+    mappingJson: text("mapping_json"),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("libraries_ws_idx").on(t.workspaceId), index("libraries_visibility_idx").on(t.visibility)],
+);
+
+/** The original uploaded file, byte for byte, with its SHA-256. */
+export const uploads = mysqlTable(
+  "uploads",
+  {
+    id: id(),
+    libraryId: ref("library_id")
+      .notNull()
+      .references(() => libraries.id, { onDelete: "cascade" }),
+    filename: varchar("filename", { length: 255 }).notNull(),
+    sizeBytes: int("size_bytes").notNull(),
+    sha256: varchar("sha256", { length: 64 }).notNull(),
+    content: longblob("content").notNull(),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("uploads_library_idx").on(t.libraryId)],
+);
+
+export const libraryRevisions = mysqlTable(
+  "library_revisions",
+  {
+    id: id(),
+    libraryId: ref("library_id")
+      .notNull()
+      .references(() => libraries.id, { onDelete: "cascade" }),
+    number: int("number").notNull(),
+    uploadId: ref("upload_id").references(() => uploads.id, { onDelete: "set null" }),
+    note: varchar("note", { length: 500 }).notNull().default(""),
+    modelCount: int("model_count").notNull().default(0),
+    curveCount: int("curve_count").notNull().default(0),
+    pointCount: int("point_count").notNull().default(0),
+    skippedCount: int("skipped_count").notNull().default(0),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("library_revisions_num_uq").on(t.libraryId, t.number)],
+);
+
+export const pumpModels = mysqlTable(
+  "pump_models",
+  {
+    id: id(),
+    revisionId: ref("revision_id")
+      .notNull()
+      .references(() => libraryRevisions.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 160 }).notNull(),
+    type: varchar("type", { length: 80 }).notNull().default(""),
+    nominalSize: varchar("nominal_size", { length: 60 }).notNull().default(""),
+    ratedSpeed: double("rated_speed"),
+    impellerMin: double("impeller_min"),
+    impellerMax: double("impeller_max"),
+    notes: varchar("notes", { length: 1000 }).notNull().default(""),
+  },
+  (t) => [index("pump_models_rev_idx").on(t.revisionId)],
+);
+
+/** One curve (one speed and impeller diameter); summary columns pre-filter the duty-point search. */
+export const curveSets = mysqlTable(
+  "curve_sets",
+  {
+    id: id(),
+    modelId: ref("model_id")
+      .notNull()
+      .references(() => pumpModels.id, { onDelete: "cascade" }),
+    revisionId: ref("revision_id")
+      .notNull()
+      .references(() => libraryRevisions.id, { onDelete: "cascade" }),
+    speed: double("speed"), // rpm
+    impellerDiameter: double("impeller_diameter"), // m
+    flowMin: double("flow_min").notNull(), // m³/s
+    flowMax: double("flow_max").notNull(),
+    headMax: double("head_max").notNull(), // m
+    headMin: double("head_min").notNull(),
+    pointCount: int("point_count").notNull(),
+  },
+  (t) => [index("curve_sets_rev_idx").on(t.revisionId), index("curve_sets_model_idx").on(t.modelId)],
+);
+
+export const curvePoints = mysqlTable(
+  "curve_points",
+  {
+    id: id(),
+    curveSetId: ref("curve_set_id")
+      .notNull()
+      .references(() => curveSets.id, { onDelete: "cascade" }),
+    seq: int("seq").notNull(),
+    flow: double("flow").notNull(), // m³/s
+    head: double("head").notNull(), // m
+    efficiency: double("efficiency"), // 0..1
+    power: double("power"), // W (shaft)
+    npshr: double("npshr"), // m
+  },
+  (t) => [index("curve_points_set_idx").on(t.curveSetId, t.seq)],
 );
