@@ -3,6 +3,7 @@ import { type RouteConfig, index, route } from "@react-router/dev/routes";
 export default [
   index("routes/home.tsx"),
   route("healthz", "routes/healthz.ts"),
+  // accounts
   route("signup", "routes/signup.tsx"),
   route("signin", "routes/signin.tsx"),
   route("signout", "routes/signout.ts"),
@@ -13,7 +14,16 @@ export default [
   route("workspace", "routes/workspace.tsx"),
   route("workspace/new", "routes/workspace.new.tsx"),
   route("invite/:token", "routes/invite.$token.tsx"),
+  route("dev/mailbox", "routes/dev.mailbox.tsx"),
+  // pump libraries
+  route("libraries", "routes/libraries.tsx"),
+  route("libraries/:id", "routes/libraries.$id.tsx"),
+  route("libraries/:id/upload", "routes/libraries.$id.upload.tsx"),
+  route("libraries/:id/uploads/:uploadId", "routes/libraries.$id.uploads.$uploadId.tsx"),
+  // API
   route("api/v1/me", "routes/api.v1.me.ts"),
+  route("api/v1/libraries", "routes/api.v1.libraries.ts"),
+  route("api/v1/libraries/:id/curves", "routes/api.v1.libraries.$id.curves.ts"),
   route("api/*", "routes/api.not-found.ts"),
   route("*", "routes/not-found.tsx"),
 ] satisfies RouteConfig;

@@ -145,7 +145,7 @@ async function deliver(row: Pick<OutboxRow, "id" | "toAddress" | "subject" | "te
   }
   await db()
     .update(outbox)
-    .set({ lastError: null })
+    .set({ sentAt: sql`CURRENT_TIMESTAMP(3)`, lastError: null })
     .where(eq(outbox.id, row.id));
   return null;
 }

@@ -1,0 +1,207 @@
+/**
+ * Sniff the shape of a vendor CSV: delimiter, decimal comma, where the header row is.
+ * Pure: no Node or DOM APIs; the browser preview and the server run the same code.
+ */
+import { isCommaDecimalCell, isDotDecimalCell, parseNumber } from "./numbers";
+import { isBlankRow, normaliseNewlines, parseRows, stripBom, type Delimiter, type SourceRow } from "./parse";
+import { extractQualifier, normaliseHeader } from "./units-in-headers";
+
+export interface SniffResult {
+  delimiter: Delimiter;
+  decimalComma: boolean;
+  /** 0-based index of the (first) header record among all records, blank lines included; -1 when the file has no header row. */
+  headerRowIndex: number;
+  /** 1 normally; 2 when a units row sits under the names, or a group row ("2900 rpm") sits above them. */
+  headerRowCount: number;
+  /** 1-based source line of the header row (0 when none). */
+  headerLine: number;
+  /** One name per column. Blank or missing names become "Column N" (1-based). */
+  headers: string[];
+  /** 0-based record index of the first data record. */
+  dataStartRow: number;
+  /** 1-based source line of the first data record. */
+  dataStartLine: number;
+  hadBom: boolean;
+}
+
+export interface SniffOverrides {
+  delimiter?: Delimiter;
+  decimalComma?: boolean;
+  /** 0-based record index of the header row, as in SniffResult (a single header row is assumed). */
+  headerRowIndex?: number;
+}
+
+const SAMPLE_CHARS = 64 * 1024;
+const SAMPLE_ROWS = 200;
+const DELIMITERS: Delimiter[] = ["\t", ";", ","]; // preference order when several fit
+
+/** Count fields in one physical line, honouring double quotes (good enough for sniffing). */
+function countFields(line: string, d: string): number {
+  let n = 1;
+  let inQ = false;
+  for (let i = 0; i < line.length; i++) {
+    const c = line[i];
+    if (c === '"') inQ = !inQ;
+    else if (c === d && !inQ) n++;
+  }
+  return n;
+}
+
+export function detectDelimiter(sample: string): Delimiter {
+  const lines = sample.split("\n").filter((l) => l.trim() !== "");
+  // Title lines sit at the top: judge the delimiter on the lower two thirds of the sample.
+  const body = lines.length > 3 ? lines.slice(Math.floor(lines.length / 3)) : lines;
+  let best: { d: Delimiter; score: number } = { d: ",", score: -1 };
+  for (const d of DELIMITERS) {
+    const freq = new Map<number, number>();
+    for (const l of body) {
+      const n = countFields(l, d);
+      freq.set(n, (freq.get(n) ?? 0) + 1);
+    }
+    let mode = 1;
+    let modeCount = 0;
+    for (const [n, c] of freq) if (c > modeCount || (c === modeCount && n > mode)) [mode, modeCount] = [n, c];
+    const consistency = body.length ? modeCount / body.length : 0;
+    if (mode >= 2 && consistency >= 0.7) return d; // first fitting one in preference order
+    const score = mode >= 2 ? mode * consistency : 0;
+    if (score > best.score) best = { d, score };
+  }
+  return best.d;
+}
+
+export function detectDecimalComma(rows: SourceRow[], delimiter: Delimiter): boolean {
+  if (delimiter === ",") return false;
+  let comma = 0;
+  let dot = 0;
+  for (const r of rows)
+    for (const c of r.cells) {
+      if (isCommaDecimalCell(c)) comma++;
+      else if (isDotDecimalCell(c)) dot++;
+    }
+  return comma > 0 && comma >= dot * 4; // a few stray dot decimals do not overturn clear comma evidence
+}
+
+interface RowShape {
+  nonEmpty: number;
+  numeric: number;
+}
+
+function shape(cells: string[], decimalComma: boolean): RowShape {
+  let nonEmpty = 0;
+  let numeric = 0;
+  for (const c of cells) {
+    if (c.trim() === "") continue;
+    nonEmpty++;
+    if (!Number.isNaN(parseNumber(c, decimalComma))) numeric++;
+  }
+  return { nonEmpty, numeric };
+}
+
+const isHeaderish = (s: RowShape) => s.nonEmpty >= 2 && s.numeric / s.nonEmpty < 0.5;
+const isDataish = (s: RowShape) => s.numeric >= 1 && s.numeric / s.nonEmpty >= 0.5;
+
+const UNIT_CELL =
+  /^[[(]?\s*(m3\/h|m³\/h|m3\/s|m³\/s|l\/s|l\/min|gpm|us gpm|m|ft|mm|in|%|-|kw|w|hp|rpm|1\/min|min-1)\s*[\])]?$/i;
+
+export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResult {
+  const { text: noBom, hadBom } = stripBom(raw);
+  let sampleText = noBom.length > SAMPLE_CHARS ? noBom.slice(0, SAMPLE_CHARS) : noBom;
+  if (noBom.length > SAMPLE_CHARS) sampleText = sampleText.slice(0, sampleText.lastIndexOf("\n") + 1 || undefined);
+  sampleText = normaliseNewlines(sampleText);
+
+  const delimiter = overrides.delimiter ?? detectDelimiter(sampleText);
+  const records = parseRows(sampleText, { delimiter, maxRows: SAMPLE_ROWS }).rows;
+  const decimalComma = overrides.decimalComma ?? detectDecimalComma(records, delimiter);
+  const shapes = records.map((r) => shape(r.cells, decimalComma));
+  const nonBlank = records.map((_, i) => i).filter((i) => !isBlankRow(records[i].cells));
+
+  let headerRowIndex = -1;
+  let headerRowCount = 1;
+  let dataStartRow = nonBlank[0] ?? 0;
+  let headerCells: string[] = [];
+
+  if (overrides.headerRowIndex !== undefined) {
+    headerRowIndex = overrides.headerRowIndex;
+    headerCells = records[headerRowIndex]?.cells ?? [];
+    dataStartRow = headerRowIndex + 1;
+  } else {
+    let found = -1;
+    for (let k = 0; k < nonBlank.length; k++) {
+      const i = nonBlank[k];
+      if (!isHeaderish(shapes[i])) continue;
+      const next = nonBlank.slice(k + 1, k + 4);
+      if (next.length && next.every((j) => isDataish(shapes[j]))) {
+        found = k;
+        break;
+      }
+      // names row followed by a units row, then data
+      const after = nonBlank[k + 1];
+      if (
+        after !== undefined &&
+        records[after].cells.every((c) => c.trim() === "" || UNIT_CELL.test(c.trim())) &&
+        nonBlank.slice(k + 2, k + 5).length > 0 &&
+        nonBlank.slice(k + 2, k + 5).every((j) => isDataish(shapes[j]))
+      ) {
+        headerRowIndex = i;
+        headerRowCount = 2;
+        const units = records[after].cells;
+        headerCells = records[i].cells.map((c, n) => (units[n]?.trim() ? `${c.trim()} ${units[n].trim()}` : c));
+        dataStartRow = after + 1;
+        break;
+      }
+    }
+    if (found >= 0) {
+      const i = nonBlank[found];
+      headerRowIndex = i;
+      headerCells = records[i].cells;
+      dataStartRow = i + 1;
+      // a group row right above ("2900 rpm;;1450 rpm;") whose labels qualify the blocks below
+      const above = found > 0 ? nonBlank[found - 1] : undefined;
+      if (above !== undefined && above === i - 1) {
+        const cells = records[above].cells;
+        const labels = cells.filter((c) => c.trim() !== "");
+        const qualified = (c: string) => extractQualifier(normaliseHeader(c)).qualifier !== null;
+        const nQualified = labels.filter(qualified).length;
+        if (nQualified > 0 && nQualified * 2 >= labels.length) {
+          let group = "";
+          headerCells = headerCells.map((c, n) => {
+            const label = (cells[n] ?? "").trim();
+            if (label) group = qualified(label) ? label : "";
+            return group && c.trim() ? `${c.trim()} @ ${group}` : c;
+          });
+          headerRowIndex = above;
+          headerRowCount = 2;
+        }
+      }
+    } else if (headerRowIndex < 0) {
+      const first = nonBlank[0];
+      if (first !== undefined && isDataish(shapes[first])) {
+        headerRowIndex = -1; // no header row at all
+        dataStartRow = first;
+      } else if (first !== undefined) {
+        const withCells = nonBlank.find((i) => shapes[i].nonEmpty >= 2) ?? first;
+        headerRowIndex = withCells;
+        headerCells = records[withCells].cells;
+        dataStartRow = withCells + 1;
+      }
+    }
+  }
+
+  // width: the header, widened to unnamed columns that are filled on at least half the sampled data
+  // rows (a stray cell here and there is left for the extra-cells warning instead)
+  let width = headerCells.length;
+  const dataRows = records.slice(dataStartRow).filter((r) => !isBlankRow(r.cells));
+  const filled: number[] = [];
+  for (const r of dataRows)
+    for (let n = width; n < r.cells.length; n++) if (r.cells[n].trim() !== "") filled[n] = (filled[n] ?? 0) + 1;
+  for (let n = filled.length - 1; n >= width; n--)
+    if ((filled[n] ?? 0) * 2 >= dataRows.length) {
+      width = n + 1;
+      break;
+    }
+  const headers = Array.from({ length: width }, (_, n) => headerCells[n]?.trim() || `Column ${n + 1}`);
+  const headerLine = headerRowIndex >= 0 ? (records[headerRowIndex]?.line ?? 0) : 0;
+  const dataStartLine =
+    records[dataStartRow]?.line ?? (records.length ? records[records.length - 1].line + 1 : 1);
+  return { delimiter, decimalComma, headerRowIndex, headerRowCount, headerLine, headers, dataStartRow, dataStartLine, hadBom };
+}

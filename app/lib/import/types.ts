@@ -1,0 +1,34 @@
+/** Shared result types of the import core (plain JSON-serialisable objects). */
+
+export type Severity = "error" | "warning";
+
+export type ProblemCode =
+  | "not-a-number"
+  | "negative"
+  | "zero"
+  | "missing-value"
+  | "missing-model"
+  | "flow-not-increasing"
+  | "head-rising"
+  | "efficiency-over-100"
+  | "too-few-points"
+  | "duplicate-curve"
+  | "duplicate-flow"
+  | "no-speed"
+  | "no-point-values"
+  | "extra-cells"
+  | "csv-syntax"
+  | "mapping"
+  | "header-changed";
+
+export interface Problem {
+  /** 1-based source line number of the row (the header line for file-wide problems). */
+  row: number;
+  /** Header text of the column at fault; null when the problem is about the whole row or file. */
+  column: string | null;
+  reason: string;
+  severity: Severity;
+  code: ProblemCode;
+  /** Key of the curve set the problem belongs to (see curveKey()), or null. */
+  curveKey: string | null;
+}

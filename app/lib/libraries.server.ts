@@ -1,0 +1,371 @@
+// Pump libraries: listing with the plan gate, uploads kept byte for byte, server-side analysis
+// (never trusting the browser's parse), atomic imports into a new revision, curves for charts.
+import { createHash } from "node:crypto";
+import { and, asc, desc, eq, inArray, or, sql } from "drizzle-orm";
+import { data } from "react-router";
+import type { PoolConnection } from "mariadb";
+import { db, withTransaction } from "@db/client.server";
+import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, uploads, workspaces, type Visibility } from "@db/schema";
+import { analyseCsv, MappingSchema, type AnalyseResult, type Mapping } from "./import";
+import { can, type Role } from "./permissions";
+import type { WorkspaceInfo } from "./guards.server";
+import * as v from "valibot";
+
+export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
+
+/** The paid plan opens every shared library (see the plans issue); the free plan lists them locked. */
+export function planOpensShared(plan: WorkspaceInfo["plan"]): boolean {
+  return plan === "network";
+}
+
+export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+
+type LibraryRow = typeof libraries.$inferSelect & { ownerName: string };
+
+export type Access = "owner" | "open" | "locked";
+
+/** How `viewer` may see `lib`: owner (full; private only for authors), open (shared and the plan allows), locked (listed, no curves), or null (invisible). */
+export function accessTo(viewer: Viewer, lib: Pick<LibraryRow, "workspaceId" | "visibility">): Access | null {
+  if (!can(viewer.role, "library.read")) return null;
+  if (lib.workspaceId === viewer.workspace.id) {
+    if (lib.visibility === "private" && !can(viewer.role, "library.write")) return null;
+    return "owner";
+  }
+  if (lib.visibility !== "shared") return null;
+  return planOpensShared(viewer.workspace.plan) ? "open" : "locked";
+}
+
+export async function listLibraries(viewer: Viewer) {
+  const rows = await db()
+    .select({
+      lib: libraries,
+      ownerName: workspaces.name,
+      revisionNumber: libraryRevisions.number,
+      modelCount: libraryRevisions.modelCount,
+      curveCount: libraryRevisions.curveCount,
+      pointCount: libraryRevisions.pointCount,
+      importedAt: libraryRevisions.createdAt,
+    })
+    .from(libraries)
+    .innerJoin(workspaces, eq(workspaces.id, libraries.workspaceId))
+    .leftJoin(libraryRevisions, eq(libraryRevisions.id, libraries.currentRevisionId))
+    .where(or(eq(libraries.workspaceId, viewer.workspace.id), eq(libraries.visibility, "shared")))
+    .orderBy(asc(libraries.name));
+  const out = [];
+  for (const r of rows) {
+    const access = accessTo(viewer, r.lib);
+    if (!access) continue;
+    out.push({
+      id: r.lib.id,
+      name: r.lib.name,
+      description: r.lib.description,
+      visibility: r.lib.visibility,
+      owner: r.ownerName,
+      access,
+      revision: r.revisionNumber ?? null,
+      modelCount: r.modelCount ?? 0,
+      curveCount: r.curveCount ?? 0,
+      importedAt: r.importedAt?.toISOString() ?? null,
+    });
+  }
+  return out;
+}
+
+/** The library if `viewer` may see it at all; 404 otherwise (never says whether it exists). */
+export async function getLibrary(viewer: Viewer, libraryId: number) {
+  const [row] = await db()
+    .select({ lib: libraries, ownerName: workspaces.name })
+    .from(libraries)
+    .innerJoin(workspaces, eq(workspaces.id, libraries.workspaceId))
+    .where(eq(libraries.id, libraryId));
+  const access = row ? accessTo(viewer, row.lib) : null;
+  if (!row || !access) throw data("No such library in your reach.", { status: 404 });
+  return { ...row.lib, ownerName: row.ownerName, access };
+}
+
+/** For writes: the library must belong to the viewer's workspace and the role must allow `library.write`. */
+export async function getOwnLibraryForWrite(viewer: Viewer, libraryId: number) {
+  const lib = await getLibrary(viewer, libraryId);
+  if (lib.access !== "owner") throw data("No such library in your reach.", { status: 404 });
+  if (!can(viewer.role, "library.write")) throw data(`Your role (${viewer.role}) cannot change libraries.`, { status: 403 });
+  return lib;
+}
+
+export async function createLibrary(viewer: Viewer, input: { name: string; description: string }) {
+  const [{ id }] = await db()
+    .insert(libraries)
+    .values({ workspaceId: viewer.workspace.id, name: input.name, description: input.description, createdBy: viewer.userId })
+    .$returningId();
+  return id;
+}
+
+export async function updateLibrary(viewer: Viewer, libraryId: number, input: { name: string; description: string; visibility: Visibility }) {
+  const lib = await getOwnLibraryForWrite(viewer, libraryId);
+  if (input.visibility !== lib.visibility && !can(viewer.role, "library.publish")) {
+    throw data("Your role cannot change who sees this library.", { status: 403 });
+  }
+  await db().update(libraries).set(input).where(eq(libraries.id, lib.id));
+}
+
+export async function listRevisions(libraryId: number) {
+  return db()
+    .select()
+    .from(libraryRevisions)
+    .where(eq(libraryRevisions.libraryId, libraryId))
+    .orderBy(desc(libraryRevisions.number));
+}
+
+/** Uploads of this library not yet imported (newest first). */
+export async function pendingUploads(libraryId: number) {
+  const rows = await db()
+    .select({ id: uploads.id, filename: uploads.filename, sizeBytes: uploads.sizeBytes, createdAt: uploads.createdAt })
+    .from(uploads)
+    .where(and(eq(uploads.libraryId, libraryId), sql`${uploads.id} NOT IN (SELECT upload_id FROM library_revisions WHERE library_id = ${libraryId} AND upload_id IS NOT NULL)`))
+    .orderBy(desc(uploads.id));
+  return rows;
+}
+
+export class UploadRejected extends Error {}
+
+const TEXT_TYPES = new Set(["text/csv", "text/plain", "application/csv", "application/vnd.ms-excel", "text/tab-separated-values", ""]);
+
+/** Checks size, type and encoding; keeps the original bytes with their SHA-256. */
+export async function storeUpload(viewer: Viewer, libraryId: number, file: File): Promise<number> {
+  const lib = await getOwnLibraryForWrite(viewer, libraryId);
+  if (file.size === 0) throw new UploadRejected(`${file.name || "The file"} is empty.`);
+  if (file.size > MAX_UPLOAD_BYTES) throw new UploadRejected(`${file.name} is ${(file.size / 1048576).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1048576} MB.`);
+  if (!/\.(csv|txt|tsv)$/i.test(file.name) || !TEXT_TYPES.has(file.type)) {
+    throw new UploadRejected(`${file.name} is not a CSV file (expected .csv, .tsv or .txt).`);
+  }
+  const bytes = Buffer.from(await file.arrayBuffer());
+  decodeUtf8(bytes, file.name);
+  const sha256 = createHash("sha256").update(bytes).digest("hex");
+  const [{ id }] = await db()
+    .insert(uploads)
+    .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId })
+    .$returningId();
+  return id;
+}
+
+function decodeUtf8(bytes: Uint8Array, name: string): string {
+  if (bytes.subarray(0, Math.min(bytes.length, 8192)).includes(0)) throw new UploadRejected(`${name} looks like a binary file, not CSV text.`);
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    // Vendor exports from older tools are often Windows-1252; accept them rather than refuse.
+    return new TextDecoder("windows-1252").decode(bytes);
+  }
+}
+
+export async function getUpload(viewer: Viewer, libraryId: number, uploadId: number) {
+  const lib = await getOwnLibraryForWrite(viewer, libraryId);
+  const [u] = await db()
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
+  if (!u) throw data("No such upload in this library.", { status: 404 });
+  return { lib, upload: u, text: decodeUtf8(u.content, u.filename) };
+}
+
+/** The saved mapping of the library when it still fits the file's headers, else null. */
+export function savedMappingFor(lib: { mappingJson: string | null }, headers: string[]): Mapping | null {
+  if (!lib.mappingJson) return null;
+  try {
+    const m = v.parse(MappingSchema, JSON.parse(lib.mappingJson));
+    const norm = (h: string | undefined) => (h ?? "").trim().toLowerCase();
+    return m.columns.every((c) => norm(headers[c.index]) === norm(c.header)) ? m : null;
+  } catch {
+    return null;
+  }
+}
+
+/** Analyses the stored upload on the server with the given mapping (or the saved one, or the suggestion). */
+export function analyseStored(text: string, lib: { mappingJson: string | null }, mapping?: unknown): AnalyseResult & { mappingSource: "form" | "saved" | "suggested" } {
+  if (mapping !== undefined) return { ...analyseCsv(text, mapping), mappingSource: "form" };
+  const first = analyseCsv(text);
+  const saved = savedMappingFor(lib, first.sniff.headers);
+  if (saved) {
+    try {
+      return { ...analyseCsv(text, saved), mappingSource: "saved" };
+    } catch {
+      /* fall through to the suggestion */
+    }
+  }
+  return { ...first, mappingSource: "suggested" };
+}
+
+const POINT_BATCH = 5000;
+
+/**
+ * Imports the good curve sets of an upload as a new revision, in one transaction: all of it or
+ * none. Bad curve sets are skipped (counted). The mapping used is saved on the library.
+ */
+export async function importUpload(
+  viewer: Viewer,
+  libraryId: number,
+  uploadId: number,
+  mapping: unknown,
+  note = "",
+  hooks: { beforeCommit?: () => Promise<void> } = {},
+) {
+  const { lib, upload, text } = await getUpload(viewer, libraryId, uploadId);
+  const analysis = analyseCsv(text, mapping);
+  const good = analysis.result.curveSets.filter((c) => c.ok);
+  if (good.length === 0) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
+  const skipped = analysis.result.curveSets.length - good.length;
+  return withTransaction(async (tx, conn) => {
+    // Serialise imports of one library (revision numbers) without blocking others.
+    await tx.select({ id: libraries.id }).from(libraries).where(eq(libraries.id, lib.id)).for("update");
+    const [{ n }] = await tx
+      .select({ n: sql<number>`COALESCE(MAX(${libraryRevisions.number}), 0)` })
+      .from(libraryRevisions)
+      .where(eq(libraryRevisions.libraryId, lib.id));
+    const models = new Map<string, typeof good>();
+    for (const c of good) models.set(c.model, [...(models.get(c.model) ?? []), c]);
+    const pointCount = good.reduce((s, c) => s + c.points.length, 0);
+    const [{ id: revisionId }] = await tx
+      .insert(libraryRevisions)
+      .values({
+        libraryId: lib.id,
+        number: Number(n) + 1,
+        uploadId: upload.id,
+        note: note.slice(0, 500),
+        modelCount: models.size,
+        curveCount: good.length,
+        pointCount,
+        skippedCount: skipped,
+        createdBy: viewer.userId,
+      })
+      .$returningId();
+    const pointRows: (number | null)[][] = [];
+    for (const [name, sets] of models) {
+      const diameters = sets.map((s) => s.impellerDiameter).filter((d): d is number => d != null);
+      const speeds = sets.map((s) => s.speed).filter((d): d is number => d != null);
+      const [{ id: modelId }] = await tx
+        .insert(pumpModels)
+        .values({
+          revisionId,
+          name: name.slice(0, 160),
+          type: (sets[0].type ?? "").slice(0, 80),
+          nominalSize: (sets[0].size ?? "").slice(0, 60),
+          ratedSpeed: speeds.length ? Math.max(...speeds) : null,
+          impellerMin: diameters.length ? Math.min(...diameters) : null,
+          impellerMax: diameters.length ? Math.max(...diameters) : null,
+          notes: (sets[0].notes ?? "").slice(0, 1000),
+        })
+        .$returningId();
+      for (const c of sets) {
+        const heads = c.points.map((p) => p.head);
+        const [{ id: setId }] = await tx
+          .insert(curveSets)
+          .values({
+            modelId,
+            revisionId,
+            speed: c.speed,
+            impellerDiameter: c.impellerDiameter,
+            flowMin: c.points[0].flow,
+            flowMax: c.points[c.points.length - 1].flow,
+            headMax: Math.max(...heads),
+            headMin: Math.min(...heads),
+            pointCount: c.points.length,
+          })
+          .$returningId();
+        c.points.forEach((p, i) => pointRows.push([setId, i, p.flow, p.head, p.efficiency ?? null, p.power ?? null, p.npshr ?? null]));
+      }
+    }
+    await insertPoints(conn, pointRows);
+    await tx
+      .update(libraries)
+      .set({ currentRevisionId: revisionId, mappingJson: JSON.stringify(analysis.mapping) })
+      .where(eq(libraries.id, lib.id));
+    await hooks.beforeCommit?.(); // fault injection for tests: a throw here must leave nothing behind
+    return { revisionId, number: Number(n) + 1, models: models.size, curves: good.length, points: pointCount, skipped };
+  });
+}
+
+/** Multi-row INSERTs of curve points in batches on the transaction's connection. */
+export async function insertPoints(conn: PoolConnection, rows: (number | null)[][]) {
+  for (let i = 0; i < rows.length; i += POINT_BATCH) {
+    const chunk = rows.slice(i, i + POINT_BATCH);
+    const placeholders = chunk.map(() => "(?,?,?,?,?,?,?)").join(",");
+    await conn.query(
+      `INSERT INTO curve_points (curve_set_id, seq, flow, head, efficiency, power, npshr) VALUES ${placeholders}`,
+      chunk.flat(),
+    );
+  }
+}
+
+export type LibraryCurveSet = {
+  id: number;
+  modelId: number;
+  model: string;
+  type: string;
+  nominalSize: string;
+  speed: number | null;
+  impellerDiameter: number | null;
+  points: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
+};
+
+/** Curves of a revision (default: current). Refuses locked libraries: listed, never their curves. */
+export async function libraryCurves(viewer: Viewer, libraryId: number, revisionId?: number): Promise<LibraryCurveSet[]> {
+  const lib = await getLibrary(viewer, libraryId);
+  if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
+  const rev = revisionId ?? lib.currentRevisionId;
+  if (!rev) return [];
+  const [r] = await db()
+    .select({ id: libraryRevisions.id })
+    .from(libraryRevisions)
+    .where(and(eq(libraryRevisions.id, rev), eq(libraryRevisions.libraryId, lib.id)));
+  if (!r) throw data("No such revision of this library.", { status: 404 });
+  return curvesOfRevisions([rev]);
+}
+
+export async function curvesOfRevisions(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
+  if (revisionIds.length === 0) return [];
+  const sets = await db()
+    .select({ set: curveSets, model: pumpModels })
+    .from(curveSets)
+    .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
+    .where(curveSetIds ? and(inArray(curveSets.revisionId, revisionIds), inArray(curveSets.id, curveSetIds)) : inArray(curveSets.revisionId, revisionIds))
+    .orderBy(asc(pumpModels.name), asc(curveSets.speed), desc(curveSets.impellerDiameter));
+  if (sets.length === 0) return [];
+  const byId = new Map<number, LibraryCurveSet>();
+  for (const s of sets) {
+    byId.set(s.set.id, {
+      id: s.set.id,
+      modelId: s.model.id,
+      model: s.model.name,
+      type: s.model.type,
+      nominalSize: s.model.nominalSize,
+      speed: s.set.speed,
+      impellerDiameter: s.set.impellerDiameter,
+      points: [],
+    });
+  }
+  const ids = [...byId.keys()];
+  for (let i = 0; i < ids.length; i += 2000) {
+    const pts = await db()
+      .select()
+      .from(curvePoints)
+      .where(inArray(curvePoints.curveSetId, ids.slice(i, i + 2000)))
+      .orderBy(asc(curvePoints.curveSetId), asc(curvePoints.seq));
+    for (const p of pts) byId.get(p.curveSetId)!.points.push({ flow: p.flow, head: p.head, efficiency: p.efficiency, power: p.power, npshr: p.npshr });
+  }
+  return [...byId.values()];
+}
+
+/** Libraries whose curves `viewer` may search: own (as allowed) and shared ones the plan opens. */
+export async function searchableRevisions(viewer: Viewer) {
+  const list = await listLibraries(viewer);
+  const open = list.filter((l) => l.access !== "locked");
+  const rows = open.length
+    ? await db()
+        .select({ id: libraries.id, name: libraries.name, currentRevisionId: libraries.currentRevisionId })
+        .from(libraries)
+        .where(inArray(libraries.id, open.map((l) => l.id)))
+    : [];
+  return {
+    open: rows.filter((r) => r.currentRevisionId != null).map((r) => ({ libraryId: r.id, name: r.name, revisionId: r.currentRevisionId! })),
+    locked: list.filter((l) => l.access === "locked"),
+  };
+}

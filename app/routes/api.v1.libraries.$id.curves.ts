@@ -1,0 +1,26 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.libraries.$id.curves";
+import { requireApi } from "~/lib/guards.server";
+import { libraryCurves } from "~/lib/libraries.server";
+import { forbidden, notFound, badRequest } from "~/lib/problem.server";
+import { IdField } from "~/lib/forms.server";
+
+// GET /api/v1/libraries/:id/curves[?revision=N] — curve sets with points, SI units
+// (flow m³/s, head m, efficiency 0..1, power W, NPSHr m, impeller diameter m, speed rpm).
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const c = await requireApi(request, "library.read");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("Library id must be a number.");
+  const revParam = new URL(request.url).searchParams.get("revision");
+  const rev = revParam ? v.safeParse(IdField, revParam) : null;
+  if (rev && !rev.success) return badRequest("revision must be a number.");
+  try {
+    const curves = await libraryCurves({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output, rev?.output);
+    return Response.json({ units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" }, curveSets: curves });
+  } catch (e) {
+    const status = (e as { init?: { status?: number } })?.init?.status;
+    if (status === 404) return notFound();
+    if (status === 403) return forbidden("This shared library opens with the Network plan.");
+    throw e;
+  }
+}

@@ -1,0 +1,10 @@
+import type { Route } from "./+types/api.v1.libraries";
+import { requireApi } from "~/lib/guards.server";
+import { listLibraries } from "~/lib/libraries.server";
+
+// GET /api/v1/libraries — every library the caller may see; locked ones are listed without curves.
+export async function loader({ request }: Route.LoaderArgs) {
+  const c = await requireApi(request, "library.read");
+  const list = await listLibraries({ userId: c.userId, workspace: c.workspace, role: c.role });
+  return Response.json({ libraries: list });
+}

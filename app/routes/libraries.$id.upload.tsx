@@ -1,0 +1,40 @@
+import * as v from "valibot";
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/libraries.$id.upload";
+import { requireMember } from "~/lib/guards.server";
+import { storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { IdField } from "~/lib/forms.server";
+
+// POST /libraries/:id/upload (multipart, field "file"). A browser form gets a redirect to the
+// mapping step; the drop zone (Accept: application/json) gets { location } or { error }.
+export async function loader({ params }: Route.LoaderArgs) {
+  throw redirect(`/libraries/${params.id}`);
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, "library.write");
+  const id = v.parse(IdField, params.id);
+  const wantsJson = (request.headers.get("accept") ?? "").includes("application/json");
+  let form: FormData;
+  try {
+    form = await request.formData();
+  } catch {
+    return fail("The upload could not be read.", 400);
+  }
+  const file = form.get("file");
+  if (!(file instanceof File)) return fail("Choose a CSV file to upload.", 400);
+  try {
+    const uploadId = await storeUpload({ userId: m.user.id, workspace: m.workspace, role: m.role }, id, file);
+    const location = `/libraries/${id}/uploads/${uploadId}`;
+    if (wantsJson) return Response.json({ location }, { status: 201 });
+    throw redirect(location);
+  } catch (e) {
+    if (e instanceof UploadRejected) return fail(e.message, 422);
+    throw e;
+  }
+
+  function fail(error: string, status: number) {
+    if (wantsJson) return Response.json({ error }, { status });
+    throw data(error, { status });
+  }
+}

@@ -1,0 +1,106 @@
+import * as v from "valibot";
+import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import type { Route } from "./+types/libraries";
+import { requireMember } from "~/lib/guards.server";
+import { createLibrary, listLibraries } from "~/lib/libraries.server";
+import { can } from "~/lib/permissions";
+import { invalid, Name, readForm } from "~/lib/forms.server";
+import { Field } from "~/components/forms";
+import { AccessBadge } from "~/components/library-bits";
+
+export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const m = await requireMember(request, "library.read");
+  const list = await listLibraries({ userId: m.user.id, workspace: m.workspace, role: m.role });
+  return { list, canWrite: can(m.role, "library.write"), workspace: m.workspace };
+}
+
+const Schema = v.object({
+  name: Name("a library name"),
+  description: v.pipe(v.string(), v.trim(), v.maxLength(1000, "Keep the description under 1000 characters.")),
+});
+
+export async function action({ request }: Route.ActionArgs) {
+  const m = await requireMember(request, "library.write");
+  const r = await readForm(request, Schema);
+  if (!r.ok) return invalid(r.errors);
+  const id = await createLibrary({ userId: m.user.id, workspace: m.workspace, role: m.role }, r.value);
+  throw redirect(`/libraries/${id}`);
+}
+
+export default function Libraries() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>();
+  const errors = (a?.errors ?? {}) as Record<string, string>;
+  const own = d.list.filter((l) => l.access === "owner");
+  const shared = d.list.filter((l) => l.access !== "owner");
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-bold text-brand-900">Pump libraries</h1>
+      <section className="panel">
+        <h2 className="text-lg font-semibold">{d.workspace.name}</h2>
+        <LibraryTable list={own} empty="No libraries in this workspace yet." />
+      </section>
+      <section className="panel">
+        <h2 className="text-lg font-semibold">Shared by distributors</h2>
+        {d.workspace.plan !== "network" && shared.some((l) => l.access === "locked") ? (
+          <p className="caution mt-2">
+            Shared libraries open with the Network plan. Your workspace is on the free plan: you can see what is offered, not the curves.{" "}
+            <a href="/workspace/billing">See plans</a>
+          </p>
+        ) : null}
+        <LibraryTable list={shared} empty="No distributor has shared a library yet." />
+      </section>
+      {d.canWrite ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">New library</h2>
+          <Form method="post" className="mt-2 grid max-w-xl gap-3">
+            <Field label="Name" name="name" error={errors.name} required />
+            <Field label="Description" name="description" error={errors.description} hint="What pumps, which vendor, which speeds." />
+            <div>
+              <button className="btn">Create library</button>
+            </div>
+          </Form>
+        </section>
+      ) : null}
+    </div>
+  );
+}
+
+function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<typeof loader>>["list"]; empty: string }) {
+  if (list.length === 0) return <p className="mt-2 text-sm text-slate-600">{empty}</p>;
+  return (
+    <table className="mt-2 w-full text-sm">
+      <thead className="text-left text-slate-600">
+        <tr>
+          <th className="py-1">Library</th>
+          <th>Owner</th>
+          <th>Models</th>
+          <th>Curves</th>
+          <th>Revision</th>
+          <th>Access</th>
+        </tr>
+      </thead>
+      <tbody>
+        {list.map((l) => (
+          <tr key={l.id} className="border-t border-slate-100 align-top">
+            <td className="py-1">
+              <a href={`/libraries/${l.id}`} className="font-semibold">
+                {l.name}
+              </a>
+              {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
+            </td>
+            <td>{l.owner}</td>
+            <td>{l.modelCount}</td>
+            <td>{l.curveCount}</td>
+            <td>{l.revision ? `#${l.revision}` : "—"}</td>
+            <td>
+              <AccessBadge access={l.access} visibility={l.visibility} />
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
