@@ -13,8 +13,10 @@ import {
   mysqlEnum,
   boolean,
   text,
+  mediumtext,
   double,
   customType,
+  primaryKey,
 } from "drizzle-orm/mysql-core";
 
 /** LONGBLOB (drizzle has no builtin for it); values are Buffers. */
@@ -292,4 +294,95 @@ export const curvePoints = mysqlTable(
     npshr: double("npshr"), // m
   },
   (t) => [index("curve_points_set_idx").on(t.curveSetId, t.seq)],
+);
+
+// ── Engineer's workspace: projects, systems, candidates, selections ────────────────────────
+export const projects = mysqlTable(
+  "projects",
+  {
+    id: id(),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 160 }).notNull(),
+    site: varchar("site", { length: 200 }).notNull().default(""),
+    description: varchar("description", { length: 2000 }).notNull().default(""),
+    archivedAt: datetime("archived_at", { mode: "date" }),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("projects_ws_idx").on(t.workspaceId)],
+);
+
+/** One pumped circuit; its inputs are one JSON document validated by SystemInputSchema (app/lib/system-input.ts), SI units. */
+export const systems = mysqlTable(
+  "systems",
+  {
+    id: id(),
+    projectId: ref("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: varchar("name", { length: 160 }).notNull(),
+    inputJson: text("input_json").notNull(),
+    archivedAt: datetime("archived_at", { mode: "date" }),
+    createdAt: createdAt(),
+    updatedAt: datetime("updated_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index("systems_project_idx").on(t.projectId), index("systems_ws_idx").on(t.workspaceId)],
+);
+
+/** A pump curve set overlaid on a system, with how it is adjusted (speed, trim, several pumps). */
+export const candidates = mysqlTable(
+  "candidates",
+  {
+    id: id(),
+    systemId: ref("system_id")
+      .notNull()
+      .references(() => systems.id, { onDelete: "cascade" }),
+    curveSetId: ref("curve_set_id")
+      .notNull()
+      .references(() => curveSets.id, { onDelete: "cascade" }),
+    adjustmentJson: text("adjustment_json").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("candidates_system_idx").on(t.systemId)],
+);
+
+/** The chosen candidate, frozen: inputs, curve points, library revision and results as JSON. */
+export const selections = mysqlTable(
+  "selections",
+  {
+    id: id(),
+    systemId: ref("system_id")
+      .notNull()
+      .references(() => systems.id, { onDelete: "cascade" }),
+    projectId: ref("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    curveSetId: ref("curve_set_id"),
+    revisionId: ref("revision_id"),
+    title: varchar("title", { length: 200 }).notNull(),
+    note: varchar("note", { length: 2000 }).notNull().default(""),
+    frozenJson: mediumtext("frozen_json").notNull(),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("selections_system_idx").on(t.systemId), index("selections_ws_idx").on(t.workspaceId)],
+);
+
+/** Fixed-window request counters per key (e.g. "calc:127.0.0.1"), shared by every app process. */
+export const rateLimits = mysqlTable(
+  "rate_limits",
+  {
+    bucket: varchar("bucket", { length: 120 }).notNull(),
+    windowStart: datetime("window_start", { mode: "date" }).notNull(),
+    hits: int("hits").notNull().default(0),
+  },
+  (t) => [primaryKey({ name: "rate_limits_pk", columns: [t.bucket, t.windowStart] })],
 );
