@@ -16,6 +16,7 @@ import { csrfRefusal } from "~/lib/csrf.server";
 import { getAuth } from "~/lib/auth.server";
 import { currentMembership } from "~/lib/guards.server";
 import { problem } from "~/lib/problem.server";
+import { ensureOutboxFlusher } from "~/lib/mail.server";
 
 /** Bodies above these sizes are refused before any action reads them (413). */
 const BODY_LIMITS: [RegExp, number][] = [
@@ -27,6 +28,7 @@ const DEFAULT_BODY_LIMIT = 1024 * 1024;
 
 export const middleware: Route.MiddlewareFunction[] = [
   async ({ request }, next) => {
+    ensureOutboxFlusher(); // idempotent: retries unsent mail in the background of each app process
     const url = new URL(request.url);
     const isApi = url.pathname.startsWith("/api/");
     const refusal = csrfRefusal(request);

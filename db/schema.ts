@@ -27,7 +27,8 @@ export const ref = (name: string) => bigint(name, { mode: "number", unsigned: tr
 export const createdAt = () =>
   datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
 
-export const PLANS = ["free", "network"] as const;
+import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "../app/lib/constants";
+export { PLANS, ROLES, VISIBILITIES, type Role, type Visibility };
 
 export const workspaces = mysqlTable(
   "workspaces",
@@ -41,8 +42,6 @@ export const workspaces = mysqlTable(
   (t) => [uniqueIndex("workspaces_slug_uq").on(t.slug)],
 );
 
-export const ROLES = ["admin", "engineer", "distributor", "contractor", "viewer"] as const;
-export type Role = (typeof ROLES)[number];
 
 export const users = mysqlTable(
   "users",
@@ -180,8 +179,6 @@ export const apiTokens = mysqlTable(
 // ── Pump libraries (issue: vendor CSV import) ───────────────────────────────────────────────
 // A library belongs to a workspace; every import makes a new immutable revision holding its own
 // models, curve sets and points, so selections keep the revision they were made with.
-export const VISIBILITIES = ["private", "workspace", "shared"] as const;
-export type Visibility = (typeof VISIBILITIES)[number];
 
 export const libraries = mysqlTable(
   "libraries",

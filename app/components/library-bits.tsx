@@ -14,3 +14,10 @@ export function AccessBadge({ access, visibility }: { access: "owner" | "open" |
 }
 
 export const fmtBytes = (n: number) => (n > 1048576 ? `${(n / 1048576).toFixed(1)} MB` : `${Math.max(1, Math.round(n / 1024))} kB`);
+
+export function curveLabel(speed: number | null, diameter: number | null): string {
+  const parts = [];
+  if (speed) parts.push(`${Math.round(speed)} rpm`);
+  if (diameter) parts.push(`Ø${Math.round(diameter * 1000)} mm`);
+  return parts.join(" · ") || "curve";
+}

@@ -95,3 +95,33 @@ export function requireInteger(name: string, value: unknown, min = 0): number {
   }
   return v;
 }
+
+/**
+ * Guards a result: throws {@link EngineInputError} naming `parameter` if any number in
+ * `value` (deeply, including arrays) is NaN or ±Infinity — inputs so extreme that the
+ * arithmetic overflows are reported, never passed on as NaN.
+ * @param parameter the input(s) to blame in the error (unitless label)
+ * @param value the result to scan (any units)
+ */
+export function requireFiniteResult<T>(parameter: string, value: T): T {
+  const bad = firstNonFinite(value, 0);
+  if (bad !== null) {
+    throw new EngineInputError(parameter, `values are outside any physical range: the result (${bad}) is not finite`);
+  }
+  return value;
+}
+
+function firstNonFinite(v: unknown, depth: number): string | null {
+  if (typeof v === "number") return Number.isFinite(v) ? null : String(v);
+  if (v === null || typeof v !== "object" || depth > 6) return null;
+  if (ArrayBuffer.isView(v)) {
+    const a = v as unknown as ArrayLike<number>;
+    for (let i = 0; i < a.length; i++) if (!Number.isFinite(a[i])) return String(a[i]);
+    return null;
+  }
+  for (const k in v as Record<string, unknown>) {
+    const r = firstNonFinite((v as Record<string, unknown>)[k], depth + 1);
+    if (r !== null) return `${k} = ${r}`;
+  }
+  return null;
+}

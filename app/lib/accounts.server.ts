@@ -9,8 +9,8 @@ import { sendMail } from "./mail.server";
 import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "./mail-templates";
 import type { Role } from "./permissions";
 
-export const EMAIL_TOKEN_TTL = { verify: 48 * 60, reset: 30 } as const; // minutes
-export const INVITE_TTL_DAYS = 14;
+import { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS } from "./constants";
+export { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS };
 
 export function appUrl(): string {
   return (process.env.APP_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");

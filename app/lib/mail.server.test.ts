@@ -36,6 +36,11 @@ async function closedPort(): Promise<number> {
   return port;
 }
 
+function restoreEnv(k: keyof typeof saved) {
+  if (saved[k] === undefined) delete process.env[k];
+  else process.env[k] = saved[k];
+}
+
 const row = async (id: number) => (await db().select().from(outbox).where(eq(outbox.id, id)))[0];
 const useLiveSmtp = () => {
   process.env.SMTP_URL = `smtp://127.0.0.1:${box.smtpPort}`;
@@ -56,10 +61,7 @@ afterAll(async () => {
   await closeDb();
   await box?.close();
   rmSync(tmp, { recursive: true, force: true });
-  for (const [k, v] of Object.entries(saved)) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
+  for (const k of Object.keys(saved) as Array<keyof typeof saved>) restoreEnv(k);
 });
 
 describe("sendMail", () => {
@@ -139,7 +141,7 @@ describe("sendMail", () => {
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     const a = await sendMail({ to: addr("held"), subject: "held 1", text: "x", html: "x" });
     const b = await sendMail({ to: addr("held"), subject: "held 2", text: "x", html: "x" });
-    process.env.NODE_ENV = saved.NODE_ENV;
+    restoreEnv("NODE_ENV");
     expect(a).toMatchObject({ sent: false, held: true });
     expect(b).toMatchObject({ sent: false, held: true });
     expect(warn).toHaveBeenCalledTimes(1);
@@ -190,10 +192,9 @@ describe("sendMail", () => {
 
 describe("mailboxEnabled", () => {
   afterEach(() => {
-    for (const k of ["NODE_ENV", "DUTYMARK_TEST_MODE", "MAILBOX_ENABLED"] as const) {
-      if (k === "NODE_ENV") process.env.NODE_ENV = saved.NODE_ENV;
-      else delete process.env[k];
-    }
+    restoreEnv("NODE_ENV");
+    delete process.env.DUTYMARK_TEST_MODE;
+    delete process.env.MAILBOX_ENABLED;
   });
 
   test("off in production unless test mode or MAILBOX_ENABLED=1", () => {

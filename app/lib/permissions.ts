@@ -1,7 +1,7 @@
 // The one permission map: role × action → allowed. Shared by the server (guards decide) and the UI
 // (which only hides what a role cannot do). Tests sweep the whole table (permissions.test.ts).
-export const ROLES = ["admin", "engineer", "distributor", "contractor", "viewer"] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from "./constants";
+export { ROLES, type Role };
 
 export const ROLE_LABELS: Record<Role, string> = {
   admin: "Admin — people, plan and billing",

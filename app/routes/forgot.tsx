@@ -1,7 +1,8 @@
 import * as v from "valibot";
 import { Form, useActionData } from "react-router";
 import type { Route } from "./+types/forgot";
-import { requestPasswordReset, EMAIL_TOKEN_TTL } from "~/lib/accounts.server";
+import { requestPasswordReset } from "~/lib/accounts.server";
+import { EMAIL_TOKEN_TTL } from "~/lib/constants";
 import { Email, invalid, readForm } from "~/lib/forms.server";
 import { Card, Field, Notice } from "~/components/forms";
 

@@ -5,9 +5,9 @@ import { requireMember } from "~/lib/guards.server";
 import { getLibrary, libraryCurves, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
 import { can } from "~/lib/permissions";
 import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
-import { VISIBILITIES } from "@db/schema";
+import { VISIBILITIES } from "~/lib/constants";
 import { Field, FormError, Notice } from "~/components/forms";
-import { AccessBadge, fmtBytes } from "~/components/library-bits";
+import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
 import { UploadDrop } from "~/components/UploadDrop";
 import { CurvePreview } from "~/components/CurvePreview";
 
@@ -216,11 +216,4 @@ export default function LibraryPage() {
       ) : null}
     </div>
   );
-}
-
-export function curveLabel(speed: number | null, diameter: number | null): string {
-  const parts = [];
-  if (speed) parts.push(`${Math.round(speed)} rpm`);
-  if (diameter) parts.push(`Ø${Math.round(diameter * 1000)} mm`);
-  return parts.join(" · ") || "curve";
 }

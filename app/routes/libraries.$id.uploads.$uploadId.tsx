@@ -7,8 +7,7 @@ import { blockLabel, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type
 import { IdField } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
-import { fmtBytes } from "~/components/library-bits";
-import { curveLabel } from "./libraries.$id";
+import { curveLabel, fmtBytes } from "~/components/library-bits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 

@@ -1,0 +1,239 @@
+/**
+ * Speed change and impeller trim.
+ *
+ * Speed (affinity laws, common practice; hold well for modest speed changes):
+ *   Q ∝ N, H ∝ N², P ∝ N³, efficiency unchanged; NPSHr taken ∝ N² (approximate).
+ * Impeller trim — APPROXIMATE, real trimmed impellers deviate, and lose some efficiency:
+ *   `linear` law (default, constant-efficiency approximation): Q ∝ D, H ∝ D², P ∝ D³;
+ *   `square` law (constant outlet width):                      Q ∝ D², H ∝ D², P ∝ D⁴.
+ *   Efficiency is kept unchanged and NPSHr values are carried to the scaled flows unchanged.
+ *   Trims of more than ~20 % of the curve's diameter, or below the model's minimum
+ *   diameter, are flagged.
+ */
+import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, type EngineWarning } from "./errors.ts";
+import { evalCubic } from "./interp.ts";
+import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
+import { brent } from "./roots.ts";
+
+/** Impeller trim law. */
+export type TrimLaw = "linear" | "square";
+
+/** Largest trim, as a fraction of the curve's diameter, before a flag (common practice). */
+export const MAX_TRIM_FRACTION = 0.2;
+
+/** A curve scaled by speed or trim. */
+export interface ScaledCurve {
+  /** The scaled, prepared curve. */
+  curve: PumpCurve;
+  /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁ (dimensionless). */
+  ratio: number;
+  warnings: EngineWarning[];
+}
+
+function inputOf(c: PumpCurve): PumpCurveInput {
+  return {
+    points: c.points,
+    speed: c.speed ?? undefined,
+    impellerDiameter: c.impellerDiameter ?? undefined,
+    minDiameter: c.minDiameter ?? undefined,
+    maxDiameter: c.maxDiameter ?? undefined,
+    powerDensity: c.powerDensity,
+  };
+}
+
+function scalePoints(points: readonly PumpPoint[], q: number, h: number, p: number, n: number): PumpPoint[] {
+  return points.map((pt) => {
+    const out: PumpPoint = { flow: pt.flow * q, head: pt.head * h };
+    if (pt.efficiency !== undefined) out.efficiency = pt.efficiency;
+    if (pt.power !== undefined) out.power = pt.power * p;
+    if (pt.npshr !== undefined) out.npshr = pt.npshr * n;
+    return out;
+  });
+}
+
+/**
+ * Curve at another speed by the affinity laws (Q ∝ N, H ∝ N², P ∝ N³).
+ * @param curve pump curve (prepared or raw; SI)
+ * @param ratio speed ratio N₂/N₁ (dimensionless, > 0)
+ */
+export function scaleBySpeed(curve: PumpCurve | PumpCurveInput, ratio: number): ScaledCurve {
+  const c = ensurePumpCurve(curve);
+  const r = requirePositive("ratio", ratio);
+  const warnings: EngineWarning[] = [];
+  if (r < 0.5 || r > 1.2) warnings.push({ code: "large-speed-change", parameter: "ratio",
+    message: `speed ratio ${r.toFixed(3)}: affinity laws are less reliable far from the tested speed` });
+  const input = inputOf(c);
+  const scaled = createPumpCurve({ ...input, points: scalePoints(c.points, r, r * r, r * r * r, r * r),
+    speed: c.speed !== null ? c.speed * r : undefined, riseTolerance: 1 });
+  return { curve: scaled, ratio: r, warnings };
+}
+
+function trimExponents(law: TrimLaw): { q: number; p: number } {
+  if (law === "linear") return { q: 1, p: 3 };
+  if (law === "square") return { q: 2, p: 4 };
+  throw new EngineInputError("law", "must be 'linear' or 'square'");
+}
+
+function trimWarnings(c: PumpCurve, ratio: number): EngineWarning[] {
+  const w: EngineWarning[] = [{ code: "trim-approximate", message: "impeller trim scaling is approximate; confirm with the manufacturer's trimmed curve" }];
+  if (ratio < 1 - MAX_TRIM_FRACTION) w.push({ code: "large-trim", parameter: "ratio",
+    message: `trim of ${((1 - ratio) * 100).toFixed(1)} % exceeds ${MAX_TRIM_FRACTION * 100} %: prediction unreliable` });
+  if (ratio > 1) w.push({ code: "diameter-increase", parameter: "ratio", message: "diameter above the curve's impeller: check the model's maximum" });
+  if (c.impellerDiameter !== null) {
+    const d = c.impellerDiameter * ratio;
+    if (c.minDiameter !== null && d < c.minDiameter * (1 - 1e-9)) w.push({ code: "below-min-diameter", parameter: "ratio",
+      message: `trimmed diameter ${(d * 1000).toFixed(1)} mm is below the model's minimum ${(c.minDiameter * 1000).toFixed(1)} mm` });
+    if (c.maxDiameter !== null && d > c.maxDiameter * (1 + 1e-9)) w.push({ code: "above-max-diameter", parameter: "ratio",
+      message: `diameter ${(d * 1000).toFixed(1)} mm is above the model's maximum ${(c.maxDiameter * 1000).toFixed(1)} mm` });
+  }
+  return w;
+}
+
+/**
+ * Curve for a trimmed impeller (approximate; see module comment for the laws).
+ * @param curve pump curve (prepared or raw; SI)
+ * @param ratio diameter ratio D₂/D₁ (dimensionless, > 0)
+ * @param law trim law, "linear" (default) or "square" (unitless)
+ */
+export function scaleByTrim(curve: PumpCurve | PumpCurveInput, ratio: number, law: TrimLaw = "linear"): ScaledCurve {
+  const c = ensurePumpCurve(curve);
+  const r = requirePositive("ratio", ratio);
+  const e = trimExponents(law);
+  const rq = Math.pow(r, e.q);
+  const scaled = createPumpCurve({ ...inputOf(c), points: scalePoints(c.points, rq, r * r, Math.pow(r, e.p), 1),
+    impellerDiameter: c.impellerDiameter !== null ? c.impellerDiameter * r : undefined, riseTolerance: 1 });
+  return { curve: scaled, ratio: r, warnings: trimWarnings(c, r) };
+}
+
+/** Result of solving for the speed or trim that meets a duty. */
+export interface RatioSolution {
+  /** `ok`, or why no ratio in the limits meets the duty. */
+  status: "ok" | "duty-above-curve" | "duty-below-limit" | "outside-curve";
+  /** The ratio (speed N₂/N₁ or diameter D₂/D₁), dimensionless; null unless ok. */
+  ratio: number | null;
+  /** New speed, rpm, when the curve has one (speed solve). */
+  speed: number | null;
+  /** New impeller diameter, m, when the curve has one (trim solve). */
+  diameter: number | null;
+  /** Efficiency at the duty on the scaled curve (fraction; constant-efficiency assumption), or null. */
+  efficiency: number | null;
+  message: string;
+  warnings: EngineWarning[];
+}
+
+/**
+ * Solves s such that the scaled curve passes through (Qd, Hd): s²·H(Qd/s^k) = Hd, for
+ * k = 1 (speed, linear trim) or 2 (square trim). Returns the largest root in [lo, hi].
+ */
+function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number, hi: number) {
+  const f = (s: number) => {
+    const h = evalCubic(c.head, qd / Math.pow(s, k));
+    return h === null ? NaN : s * s * h - hd;
+  };
+  // Ratios for which Qd/s^k lies on the curve.
+  const sMin = Math.max(lo, Math.pow(qd / c.flowMax, 1 / k));
+  const sMax = c.flowMin > 0 ? Math.min(hi, Math.pow(qd / c.flowMin, 1 / k)) : hi;
+  if (!(sMin <= sMax)) return { status: "outside-curve" as const, ratio: null };
+  const N = 48;
+  let prevS = sMax, prevF = f(sMax);
+  if (prevF === 0) return { status: "ok" as const, ratio: sMax };
+  for (let i = 1; i <= N; i++) {
+    const s = sMax - ((sMax - sMin) * i) / N;
+    const fs = f(s);
+    if (fs === 0) return { status: "ok" as const, ratio: s };
+    if (prevF * fs < 0) {
+      const r = brent(f, s, prevS, 1e-14);
+      if (r) return { status: "ok" as const, ratio: r.x };
+    }
+    prevS = s; prevF = fs;
+  }
+  return { status: (f(sMax) < 0 ? "duty-above-curve" : "duty-below-limit") as "duty-above-curve" | "duty-below-limit", ratio: null };
+}
+
+function checkDuty(duty: { flow: number; head: number }) {
+  if (!duty || typeof duty !== "object") throw new EngineInputError("duty", "is required");
+  return { qd: requirePositive("duty.flow", duty.flow), hd: requirePositive("duty.head", duty.head) };
+}
+
+/**
+ * Speed ratio that puts the curve through the duty point (flow, head on the system curve).
+ * @param curve pump curve (prepared or raw; SI)
+ * @param duty.flow duty flow, m³/s
+ * @param duty.head head the system needs at the duty flow, m
+ * @param limits.min smallest speed ratio allowed (dimensionless; default 0.3)
+ * @param limits.max largest speed ratio allowed (dimensionless; default 1.0)
+ */
+export function speedForDuty(
+  curve: PumpCurve | PumpCurveInput,
+  duty: { flow: number; head: number },
+  limits: { min?: number; max?: number } = {},
+): RatioSolution {
+  const c = ensurePumpCurve(curve);
+  const { qd, hd } = checkDuty(duty);
+  const lo = requirePositive("limits.min", limits.min ?? 0.3);
+  const hi = requirePositive("limits.max", limits.max ?? 1);
+  if (lo > hi) throw new EngineInputError("limits.min", "must not exceed limits.max");
+  const r = solveRatio(c, qd, hd, 1, lo, hi);
+  if (r.ratio === null) {
+    return { status: r.status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [],
+      message: r.status === "duty-above-curve" ? "duty head is above the curve even at the highest allowed speed"
+        : r.status === "outside-curve" ? "duty flow falls outside the curve at every allowed speed"
+        : "duty needs a speed below the lowest allowed" };
+  }
+  const e = c.efficiency ? evalCubic(c.efficiency, qd / r.ratio) : null;
+  const warnings = scaleWarningsSpeed(r.ratio);
+  return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed !== null ? c.speed * r.ratio : null, diameter: c.impellerDiameter,
+    efficiency: e, warnings, message: `speed ratio ${r.ratio.toFixed(4)}` });
+}
+
+function scaleWarningsSpeed(r: number): EngineWarning[] {
+  return r < 0.5 || r > 1.2 ? [{ code: "large-speed-change", parameter: "ratio",
+    message: `speed ratio ${r.toFixed(3)}: affinity laws are less reliable far from the tested speed` }] : [];
+}
+
+/**
+ * Trimmed diameter ratio that puts the curve through the duty point (approximate).
+ * @param curve pump curve (prepared or raw; SI)
+ * @param duty.flow duty flow, m³/s
+ * @param duty.head head the system needs at the duty flow, m
+ * @param options.law trim law "linear" | "square" (unitless; default "linear")
+ * @param options.minRatio smallest diameter ratio searched (dimensionless; default 0.5)
+ */
+export function trimForDuty(
+  curve: PumpCurve | PumpCurveInput,
+  duty: { flow: number; head: number },
+  options: { law?: TrimLaw; minRatio?: number } = {},
+): RatioSolution {
+  const c = ensurePumpCurve(curve);
+  const { qd, hd } = checkDuty(duty);
+  const law = options.law ?? "linear";
+  const k = trimExponents(law).q;
+  const lo = requirePositive("options.minRatio", options.minRatio ?? 0.5);
+  const r = solveRatio(c, qd, hd, k, Math.min(lo, 1), 1);
+  if (r.ratio === null) {
+    return { status: r.status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [],
+      message: r.status === "duty-above-curve" ? "duty head is above the full-diameter curve: trimming cannot help"
+        : r.status === "outside-curve" ? "duty flow falls outside the curve at every trim"
+        : "duty needs a trim beyond the searched range" };
+  }
+  const e = c.efficiency ? evalCubic(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
+  return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,
+    efficiency: e, warnings: trimWarnings(c, r.ratio), message: `diameter ratio ${r.ratio.toFixed(4)} (${law} law, approximate)` });
+}
+
+/**
+ * Affinity-law conversion of one point between speeds (Q ∝ N, H ∝ N², P ∝ N³).
+ * @param point.flow flow, m³/s
+ * @param point.head head, m
+ * @param point.power shaft power, W (optional)
+ * @param ratio speed ratio N₂/N₁ (dimensionless)
+ */
+export function affinityPoint(point: { flow: number; head: number; power?: number }, ratio: number): { flow: number; head: number; power?: number } {
+  const r = requirePositive("ratio", ratio);
+  const out: { flow: number; head: number; power?: number } = {
+    flow: requireFinite("point.flow", point.flow) * r,
+    head: requireFinite("point.head", point.head) * r * r,
+  };
+  if (point.power !== undefined) out.power = requireFinite("point.power", point.power) * r * r * r;
+  return out;
+}

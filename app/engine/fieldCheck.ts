@@ -1,0 +1,258 @@
+/**
+ * Field check maths.
+ * TDH from gauges (Bernoulli between the two taps, common practice):
+ *   TDH = (p_d − p_s)/(ρ·g₀) + (z_d − z_s) + (V_d² − V_s²)/(2·g₀),
+ * with gauge pressures p (Pa, same reference for both), gauge elevations z (m, above a common
+ * datum) and V = Q/A at each tap's pipe inner diameter.
+ * With a flow meter: deviation of the measured point from the curve, and a verdict against
+ * tolerance grades. Without: flow is inferred where the curve meets the measured TDH, and a
+ * band from the gauge accuracy (root-sum-square of both gauges, as independent errors)
+ * is carried through the curve: flat curves give wide bands.
+ * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed).
+ */
+import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { checkFluid, type Fluid } from "./fluids.ts";
+import { evalCubic } from "./interp.ts";
+import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { brent } from "./roots.ts";
+import { G0 } from "./units.ts";
+
+/** An acceptance grade: allowed deviations as fractions, [below, above]. */
+export interface ToleranceGrade {
+  id: string;
+  /** Flow tolerance, fractions: measured may be from (1 − below)·Q to (1 + above)·Q. */
+  flow: readonly [number, number];
+  /** Head tolerance, fractions. */
+  head: readonly [number, number];
+  /** Power may exceed by this fraction (optional). */
+  powerAbove?: number;
+  /** Efficiency may fall short by this fraction (optional). */
+  efficiencyBelow?: number;
+  source: string;
+}
+
+const ISO = "ISO 9906:2012 acceptance grades (from memory; verify against the standard)";
+
+/** Acceptance grades, tightest first. */
+export const TOLERANCE_GRADES: readonly ToleranceGrade[] = [
+  { id: "1B", flow: [0.05, 0.05], head: [0.03, 0.03], powerAbove: 0.04, efficiencyBelow: 0.03, source: ISO },
+  { id: "1E", flow: [0.05, 0.05], head: [0.03, 0.03], powerAbove: 0.04, efficiencyBelow: 0, source: ISO },
+  { id: "1U", flow: [0, 0.1], head: [0, 0.06], powerAbove: 0.1, efficiencyBelow: 0, source: ISO },
+  { id: "2B", flow: [0.08, 0.08], head: [0.05, 0.05], powerAbove: 0.08, efficiencyBelow: 0.05, source: ISO },
+  { id: "2U", flow: [0, 0.16], head: [0, 0.1], powerAbove: 0.16, efficiencyBelow: 0.05, source: ISO },
+  { id: "3B", flow: [0.09, 0.09], head: [0.07, 0.07], powerAbove: 0.09, efficiencyBelow: 0.07, source: ISO },
+];
+
+/** One pressure gauge. */
+export interface GaugeReading {
+  /** Gauge pressure, Pa (both gauges on the same reference). */
+  pressure: number;
+  /** Gauge elevation above a common datum, m. */
+  elevation: number;
+  /** Pipe inner diameter at the tap, m. */
+  pipeDiameter: number;
+  /** Gauge accuracy, ± Pa (default 0). */
+  accuracy?: number;
+}
+
+/** Inputs to {@link fieldCheck}. */
+export interface FieldCheckInput {
+  curve: PumpCurve | PumpCurveInput;
+  fluid: Fluid;
+  suction: GaugeReading;
+  discharge: GaugeReading;
+  /** Measured flow, m³/s (omit when there is no flow meter). */
+  measuredFlow?: number;
+  /** Measured shaft power, W (optional). */
+  measuredPower?: number;
+  /** Grades to judge against (default {@link TOLERANCE_GRADES}). */
+  grades?: readonly ToleranceGrade[];
+  /** Design duty, flow m³/s and head m (optional): deviation of the delivered point from it. */
+  duty?: { flow: number; head: number };
+}
+
+/** Outcome of a field check (SI). */
+export interface FieldCheckResult {
+  /** TDH at the delivered flow, m. */
+  tdh: number;
+  /** Velocity heads at the taps, m. */
+  velocityHead: { suction: number; discharge: number };
+  /** Delivered flow, m³/s: measured, or inferred from the curve (null if the curve never meets the TDH). */
+  flow: number | null;
+  flowSource: "measured" | "inferred-from-curve";
+  /** Curve head at the delivered flow, m. */
+  curveHead: number | null;
+  /** (measured head − curve head)/curve head at the measured flow (fraction). */
+  headDeviation: number | null;
+  /** (measured flow − curve flow at measured head)/curve flow (fraction). */
+  flowDeviation: number | null;
+  /** (measured power − curve power)/curve power (fraction). */
+  powerDeviation: number | null;
+  /** Inferred flow band from gauge accuracy, m³/s (null bound: beyond the curve). */
+  flowBand: { low: number | null; high: number | null; headUncertainty: number } | null;
+  /** Verdict per grade (measured flow only). */
+  grades: { id: string; pass: boolean }[];
+  /** Tightest grade met, or null. */
+  bestGrade: string | null;
+  verdict: "within-tolerance" | "outside-tolerance" | "no-flow-meter" | "off-curve";
+  /** Deviation from the design duty (fractions), if a duty was given. */
+  dutyDeviation: { flow: number; head: number } | null;
+  message: string;
+  warnings: EngineWarning[];
+}
+
+/**
+ * Total dynamic head from two gauges at a flow, m.
+ * @param suction suction gauge (Pa gauge, m, m; accuracy ± Pa)
+ * @param discharge discharge gauge (Pa gauge, m, m; accuracy ± Pa)
+ * @param flow flow, m³/s
+ * @param density liquid density, kg/m³
+ */
+export function gaugeTdh(suction: GaugeReading, discharge: GaugeReading, flow: number, density: number): { tdh: number; vhs: number; vhd: number } {
+  const ps = requireFinite("suction.pressure", suction?.pressure);
+  const pd = requireFinite("discharge.pressure", discharge?.pressure);
+  const zs = requireFinite("suction.elevation", suction.elevation);
+  const zd = requireFinite("discharge.elevation", discharge.elevation);
+  const ds = requirePositive("suction.pipeDiameter", suction.pipeDiameter);
+  const dd = requirePositive("discharge.pipeDiameter", discharge.pipeDiameter);
+  const rho = requirePositive("density", density);
+  requireNonNegative("flow", flow);
+  const vs = flow / ((Math.PI * ds * ds) / 4);
+  const vd = flow / ((Math.PI * dd * dd) / 4);
+  const vhs = (vs * vs) / (2 * G0);
+  const vhd = (vd * vd) / (2 * G0);
+  return requireFiniteResult("gauge readings", { tdh: (pd - ps) / (rho * G0) + (zd - zs) + vhd - vhs, vhs, vhd });
+}
+
+/** Flow where curve head equals target(Q); prefers the highest-flow crossing. */
+function curveFlowFor(c: PumpCurve, target: (q: number) => number): number | null {
+  const g = (q: number) => (evalCubic(c.head, q) as number) - target(q);
+  const x = c.head.x;
+  const N = 8;
+  let found: number | null = null;
+  let prevQ = x[0], prevG = g(x[0]);
+  if (prevG === 0) found = prevQ;
+  for (let i = 0; i < x.length - 1; i++) {
+    for (let j = 1; j <= N; j++) {
+      const q = x[i] + ((x[i + 1] - x[i]) * j) / N;
+      const gq = g(q);
+      if (gq === 0) found = q;
+      else if (prevG * gq < 0) {
+        const r = brent(g, prevQ, q, 1e-14 * c.flowMax);
+        if (r) found = r.x;
+      }
+      prevQ = q; prevG = gq;
+    }
+  }
+  return found;
+}
+
+/**
+ * Whether a measured point lies within a grade's tolerance of the curve: some curve point
+ * (Q, H(Q)) has Qm within [(1 − a)Q, (1 + b)Q] and Hm within [(1 − c)H, (1 + d)H].
+ * @param curve pump curve (prepared or raw; SI)
+ * @param flow measured flow, m³/s
+ * @param head measured head, m
+ * @param grade tolerance grade (fractions)
+ */
+export function withinGrade(curve: PumpCurve | PumpCurveInput, flow: number, head: number, grade: ToleranceGrade): boolean {
+  const c = ensurePumpCurve(curve);
+  const lo = Math.max(c.flowMin, flow / (1 + grade.flow[1]));
+  const hi = grade.flow[0] >= 1 ? c.flowMax : Math.min(c.flowMax, flow / (1 - grade.flow[0]));
+  if (lo > hi) return false;
+  let min = Infinity, max = -Infinity;
+  const N = 200;
+  for (let i = 0; i <= N; i++) {
+    const q = lo + ((hi - lo) * i) / N;
+    const h = evalCubic(c.head, q) as number;
+    if (!(h > 0)) continue;
+    const r = head / h - 1;
+    if (r < min) min = r;
+    if (r > max) max = r;
+  }
+  const eps = 1e-12;
+  return max >= -grade.head[0] - eps && min <= grade.head[1] + eps;
+}
+
+/**
+ * Field check: delivered duty, deviation from the curve, and a verdict.
+ * @param input curve (SI), fluid (SI), gauges (Pa, m, m, ± Pa), measuredFlow m³/s, measuredPower W, grades (fractions), duty (m³/s, m)
+ */
+export function fieldCheck(input: FieldCheckInput): FieldCheckResult {
+  return requireFiniteResult("input", fieldCheckInner(input));
+}
+
+function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
+  if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const c = ensurePumpCurve(input.curve);
+  const fluid = checkFluid(input.fluid);
+  const rho = fluid.density;
+  const grades = input.grades ?? TOLERANCE_GRADES;
+  const warnings: EngineWarning[] = [];
+  const accS = requireNonNegative("suction.accuracy", input.suction?.accuracy ?? 0);
+  const accD = requireNonNegative("discharge.accuracy", input.discharge?.accuracy ?? 0);
+  const dH = Math.hypot(accS, accD) / (rho * G0);
+  const tdhAt = (q: number) => gaugeTdh(input.suction, input.discharge, q, rho).tdh;
+  let dutyDeviation: FieldCheckResult["dutyDeviation"] = null;
+  const dutyDev = (q: number, h: number) => {
+    if (!input.duty) return null;
+    const qd = requirePositive("duty.flow", input.duty.flow);
+    const hd = requirePositive("duty.head", input.duty.head);
+    return { flow: q / qd - 1, head: h / hd - 1 };
+  };
+
+  if (input.measuredFlow !== undefined) {
+    const q = requireNonNegative("measuredFlow", input.measuredFlow);
+    const t = gaugeTdh(input.suction, input.discharge, q, rho);
+    const curveHead = evalCubic(c.head, q);
+    const headDeviation = curveHead !== null && curveHead > 0 ? t.tdh / curveHead - 1 : null;
+    const qAtH = t.tdh > 0 ? curveFlowFor(c, () => t.tdh) : null;
+    const flowDeviation = qAtH !== null && qAtH > 0 ? q / qAtH - 1 : null;
+    let powerDeviation: number | null = null;
+    if (input.measuredPower !== undefined) {
+      const pm = requirePositive("measuredPower", input.measuredPower);
+      const pc = shaftPowerAt(c, q, rho);
+      powerDeviation = pc !== null && pc > 0 ? pm / pc - 1 : null;
+    }
+    const verdicts = grades.map((g) => ({ id: g.id, pass: t.tdh > 0 && withinGrade(c, q, t.tdh, g) }));
+    const best = verdicts.find((v) => v.pass)?.id ?? null;
+    if (curveHead === null) warnings.push({ code: "flow-off-curve", message: "measured flow lies outside the published curve" });
+    dutyDeviation = dutyDev(q, t.tdh);
+    const verdict = best ? "within-tolerance" : curveHead === null && qAtH === null ? "off-curve" : "outside-tolerance";
+    return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "measured", curveHead,
+      headDeviation, flowDeviation, powerDeviation, flowBand: null, grades: verdicts, bestGrade: best, verdict, dutyDeviation,
+      message: best ? `Delivered point is within grade ${best} of the curve`
+        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${(headDeviation * 100).toFixed(1)} % from curve)` : ""}`,
+      warnings };
+  }
+
+  // No flow meter: infer flow where the curve meets the measured TDH (velocity heads depend on flow).
+  const q = curveFlowFor(c, tdhAt);
+  const qLow = curveFlowFor(c, (x) => tdhAt(x) + dH);
+  const qHigh = curveFlowFor(c, (x) => tdhAt(x) - dH);
+  const t = gaugeTdh(input.suction, input.discharge, q ?? 0, rho);
+  if (q === null) {
+    warnings.push({ code: "tdh-off-curve", message: "measured TDH is outside the curve's head range: flow cannot be inferred" });
+    return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: null, flowSource: "inferred-from-curve",
+      curveHead: null, headDeviation: null, flowDeviation: null, powerDeviation: null,
+      flowBand: { low: qLow, high: qHigh, headUncertainty: dH }, grades: [], bestGrade: null, verdict: "off-curve",
+      dutyDeviation: null, message: "Measured head is not on the curve: the pump is not performing to its curve, or a reading is wrong", warnings };
+  }
+  if (qLow === null || qHigh === null) warnings.push({ code: "band-beyond-curve", message: "the flow band from gauge accuracy runs past the end of the curve" });
+  const low = qLow === null ? null : Math.min(qLow, qHigh ?? qLow, q);
+  const high = qHigh === null ? null : Math.max(qHigh, qLow ?? qHigh, q);
+  let powerDeviation: number | null = null;
+  if (input.measuredPower !== undefined) {
+    const pm = requirePositive("measuredPower", input.measuredPower);
+    const pc = shaftPowerAt(c, q, rho);
+    powerDeviation = pc !== null && pc > 0 ? pm / pc - 1 : null;
+  }
+  if (low !== null && high !== null && q > 0 && (high - low) / q > 0.2) {
+    warnings.push({ code: "wide-flow-band", message: `flat curve: gauge accuracy gives a flow band of ±${(((high - low) / 2 / q) * 100).toFixed(0)} %; fit a flow meter for a verdict` });
+  }
+  dutyDeviation = dutyDev(q, t.tdh);
+  return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "inferred-from-curve",
+    curveHead: evalCubic(c.head, q), headDeviation: null, flowDeviation: null, powerDeviation,
+    flowBand: { low, high, headUncertainty: dH }, grades: [], bestGrade: null, verdict: "no-flow-meter", dutyDeviation,
+    message: "Flow inferred from the curve (assumes the pump is on its curve); no tolerance verdict without a flow meter", warnings };
+}

@@ -1,0 +1,133 @@
+/** Tier 3 — figures at the operating point, and field check maths. */
+import { describe, expect, it } from "vitest";
+import {
+  createPumpCurve, fieldCheck, fluidAt, G0, gaugeTdh, headAt, npshAvailable, operatingFigures, TOLERANCE_GRADES,
+  withinGrade, EngineInputError,
+} from "./index.ts";
+import { M3H, samplePoints } from "./test/curves.ts";
+
+const water = fluidAt({ kind: "water" }, 20);
+const etaCurve = createPumpCurve({ points: samplePoints() });
+const powerCurve = createPumpCurve({ points: samplePoints({ efficiency: false, power: true }) });
+
+describe("powers (definitions: P_h = ρ·g₀·Q·H, P = P_h/η)", () => {
+  it("hydraulic and shaft power at a data point", () => {
+    const f = operatingFigures({ curve: etaCurve, flow: 40 * M3H, fluid: water });
+    expect(f.hydraulicPower).toBeCloseTo(water.density * G0 * 40 * M3H * 31, 9);
+    expect(f.shaftPower!).toBeCloseTo(f.hydraulicPower / 0.75, 9);
+    expect(f.efficiency).toBe(0.75);
+  });
+  it("same figures whether the curve gives efficiency or power (at data points)", () => {
+    for (const q of [20, 50, 70]) {
+      const a = operatingFigures({ curve: etaCurve, flow: q * M3H, fluid: water });
+      const b = operatingFigures({ curve: powerCurve, flow: q * M3H, fluid: water });
+      expect(b.efficiency!).toBeCloseTo(a.efficiency!, 12);
+      expect(b.shaftPower! / a.shaftPower!).toBeCloseTo(1, 12);
+    }
+  });
+  it("POR flag: 40 m³/h is inside 70–120 % of BEP (50 m³/h), 20 m³/h is outside", () => {
+    expect(operatingFigures({ curve: etaCurve, flow: 40 * M3H, fluid: water }).inPor).toBe(true);
+    const low = operatingFigures({ curve: etaCurve, flow: 20 * M3H, fluid: water });
+    expect(low.inPor).toBe(false);
+    expect(low.warnings.map((w) => w.code)).toContain("outside-por");
+  });
+});
+
+describe("NPSH (common practice formula)", () => {
+  it("worked by hand: 101.325 kPa surface, water 20 °C (p_v 2.339 kPa, ρ 998.2), 3 m lift, 0.5 m loss → 6.61 m", () => {
+    // (101325 − 2339)/(998.2 × 9.80665) − 3 − 0.5 = 10.112 − 3.5 = 6.612 m (hand arithmetic, 3 decimals).
+    const a = npshAvailable({ surfacePressure: 101325, vaporPressure: water.vaporPressure, density: water.density, staticSuctionHead: -3, suctionLoss: 0.5 });
+    expect(Math.abs(a - 6.612)).toBeLessThan(0.001);
+  });
+  it("margin ratio and status against ANSI/HI 9.6.1-style required ratio (from memory)", () => {
+    const q = 60 * M3H; // NPSHr 4.0 m
+    const ok = operatingFigures({ curve: etaCurve, flow: q, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: 0, suctionLoss: 0.3 } });
+    expect(ok.npsh!.required).toBeCloseTo(4, 12);
+    expect(ok.npsh!.marginRatio!).toBeCloseTo(ok.npsh!.available / 4, 12);
+    expect(ok.npsh!.status).toBe("ok");
+    const low = operatingFigures({ curve: etaCurve, flow: q, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: -5.8, suctionLoss: 0.3 } });
+    expect(low.npsh!.status).toBe("low-margin");
+    const bad = operatingFigures({ curve: etaCurve, flow: q, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: -7, suctionLoss: 0.3 } });
+    expect(bad.npsh!.status).toBe("cavitation-risk");
+  });
+});
+
+describe("motor and energy", () => {
+  it("largest power is found anywhere on the curve, not just at the duty; non-overloading check vs rating × service factor", () => {
+    const f = operatingFigures({ curve: etaCurve, flow: 30 * M3H, fluid: water, motor: { rating: 4000, serviceFactor: 1.15 } });
+    expect(f.maxPower!.power).toBeGreaterThan(f.shaftPower!);
+    for (let q = 10; q <= 80; q += 1) {
+      const p = operatingFigures({ curve: etaCurve, flow: q * M3H, fluid: water }).shaftPower!;
+      expect(p).toBeLessThanOrEqual(f.maxPower!.power * (1 + 1e-12));
+    }
+    expect(f.motor!.limit).toBeCloseTo(4600, 9);
+    expect(f.motor!.nonOverloading).toBe(f.maxPower!.power <= 4600);
+    const big = operatingFigures({ curve: etaCurve, flow: 30 * M3H, fluid: water, motor: { rating: 7500 } });
+    expect(big.motor!.nonOverloading).toBe(true);
+  });
+  it("energy per year = input power × hours; cost = kWh × tariff", () => {
+    const f = operatingFigures({ curve: etaCurve, flow: 50 * M3H, fluid: water, energy: { hoursPerYear: 4000, tariffPerKWh: 0.2, motorEfficiency: 0.9 } });
+    const kw = f.shaftPower! / 0.9 / 1000;
+    expect(f.energy!.annualEnergyKWh).toBeCloseTo(kw * 4000, 9);
+    expect(f.energy!.annualCost).toBeCloseTo(kw * 4000 * 0.2, 9);
+    expect(() => operatingFigures({ curve: etaCurve, flow: 50 * M3H, fluid: water, energy: { hoursPerYear: 9000, tariffPerKWh: 0.2 } })).toThrow(EngineInputError);
+  });
+  it("flow outside the curve is a typed error naming flow", () => {
+    expect(() => operatingFigures({ curve: etaCurve, flow: 1, fluid: water })).toThrow(/flow/);
+  });
+});
+
+describe("field check", () => {
+  // Readings made from the curve itself: TDH = H(Q0) at Q0 = 45 m³/h.
+  const q0 = 45 * M3H;
+  const h0 = headAt(etaCurve, q0)!;
+  const suction = { pressure: -20_000, elevation: 0, pipeDiameter: 0.1, accuracy: 1000 };
+  const dischargeBase = { elevation: 0.6, pipeDiameter: 0.065, accuracy: 5000 };
+  const vh = (d: number) => (q0 / ((Math.PI * d * d) / 4)) ** 2 / (2 * G0);
+  const pd = (h: number) => -20_000 + water.density * G0 * (h - 0.6 - vh(0.065) + vh(0.1));
+  const discharge = { ...dischargeBase, pressure: pd(h0) };
+
+  it("TDH from gauges includes elevation and velocity heads (Bernoulli between taps)", () => {
+    const t = gaugeTdh(suction, discharge, q0, water.density);
+    expect(t.tdh).toBeCloseTo(h0, 9);
+    expect(t.vhd).toBeGreaterThan(t.vhs);
+  });
+  it("measured flow on the curve → ~0 deviation, within the tightest grade", () => {
+    const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge, measuredFlow: q0 });
+    expect(Math.abs(r.headDeviation!)).toBeLessThan(1e-9);
+    expect(Math.abs(r.flowDeviation!)).toBeLessThan(1e-9);
+    expect(r.bestGrade).toBe("1B");
+    expect(r.verdict).toBe("within-tolerance");
+  });
+  it("head 10 % low: fails 1B and 2B, passes 3B (ISO 9906:2012 grades, from memory)", () => {
+    const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge: { ...dischargeBase, pressure: pd(0.9 * h0) }, measuredFlow: q0 });
+    const pass = Object.fromEntries(r.grades.map((g) => [g.id, g.pass]));
+    expect(pass["1B"]).toBe(false);
+    expect(pass["2B"]).toBe(false);
+    expect(pass["1U"]).toBe(false);
+    expect(pass["3B"]).toBe(true);
+    expect(r.headDeviation!).toBeLessThan(-0.09);
+  });
+  it("no flow meter: flow inferred from the curve equals the true flow; band widens with gauge accuracy", () => {
+    const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge });
+    expect(r.verdict).toBe("no-flow-meter");
+    expect(r.flow! / q0).toBeCloseTo(1, 9);
+    expect(r.flowBand!.low!).toBeLessThan(q0);
+    expect(r.flowBand!.high!).toBeGreaterThan(q0);
+    const sloppy = fieldCheck({ curve: etaCurve, fluid: water, suction: { ...suction, accuracy: 5000 }, discharge: { ...discharge, accuracy: 20_000 } });
+    expect(sloppy.flowBand!.high! - sloppy.flowBand!.low!).toBeGreaterThan(r.flowBand!.high! - r.flowBand!.low!);
+  });
+  it("a flat curve gives a wider inferred-flow band than a steep one for the same gauges", () => {
+    const steep = createPumpCurve({ points: [{ flow: 0, head: 40 }, { flow: 0.01, head: 35 }, { flow: 0.02, head: 25 }, { flow: 0.03, head: 10 }] });
+    const flat = createPumpCurve({ points: [{ flow: 0, head: 26.5 }, { flow: 0.01, head: 26 }, { flow: 0.02, head: 25 }, { flow: 0.03, head: 23 }] });
+    const s = { pressure: 0, elevation: 0, pipeDiameter: 0.1, accuracy: 2000 };
+    const d = { pressure: water.density * G0 * 25, elevation: 0, pipeDiameter: 0.1, accuracy: 2000 };
+    const a = fieldCheck({ curve: steep, fluid: water, suction: s, discharge: d });
+    const b = fieldCheck({ curve: flat, fluid: water, suction: s, discharge: d });
+    expect(b.flowBand!.high! - b.flowBand!.low!).toBeGreaterThan(3 * (a.flowBand!.high! - a.flowBand!.low!));
+  });
+  it("grades are labelled data: every grade names its source", () => {
+    for (const g of TOLERANCE_GRADES) expect(g.source).toMatch(/ISO 9906:2012.*from memory/);
+    expect(withinGrade(etaCurve, q0, h0 * 1.02, TOLERANCE_GRADES[0])).toBe(true);
+  });
+});

@@ -1,0 +1,190 @@
+/**
+ * Figures at an operating point.
+ * - Hydraulic power P_h = ρ·g₀·Q·H; shaft power P = P_h/η (definitions). Efficiency and
+ *   shaft power agree whichever of the two the curve gives (pumpCurve.ts).
+ * - NPSHa = (p_surface,abs − p_vapour)/(ρg) + z_suction − hf_suction (common practice);
+ *   z_suction is the liquid surface above the pump's datum (negative for a suction lift).
+ *   Margin ratio NPSHa/NPSHr against a required ratio; ANSI/HI 9.6.1 recommends 1.1–2.5
+ *   depending on application and suction energy (from memory) — default 1.1.
+ * - Largest shaft power anywhere on the curve, for a non-overloading check against motor
+ *   rating × service factor.
+ * - Energy per year = input power × hours; cost = energy (kWh) × tariff.
+ */
+import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { checkFluid, type Fluid } from "./fluids.ts";
+import { evalCubic } from "./interp.ts";
+import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { G0 } from "./units.ts";
+
+/** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
+export const DEFAULT_NPSH_MARGIN = 1.1;
+
+/** NPSH margin guidance as data (from memory: ANSI/HI 9.6.1; check against the standard). */
+export const NPSH_MARGIN_GUIDANCE = {
+  source: "ANSI/HI 9.6.1, from memory: ratio NPSHa/NPSHr 1.1 to 2.5 by application and suction energy",
+  min: 1.1,
+  max: 2.5,
+} as const;
+
+/**
+ * NPSH available, m.
+ * @param input.surfacePressure absolute pressure on the suction liquid surface, Pa
+ * @param input.vaporPressure vapour pressure of the liquid, Pa (absolute)
+ * @param input.density liquid density, kg/m³
+ * @param input.staticSuctionHead liquid surface above the pump datum, m (negative = lift)
+ * @param input.suctionLoss suction-side head loss at the flow, m
+ */
+export function npshAvailable(input: {
+  surfacePressure: number;
+  vaporPressure: number;
+  density: number;
+  staticSuctionHead: number;
+  suctionLoss: number;
+}): number {
+  const p = requireNonNegative("surfacePressure", input.surfacePressure);
+  const pv = requireNonNegative("vaporPressure", input.vaporPressure);
+  const rho = requirePositive("density", input.density);
+  const z = requireFinite("staticSuctionHead", input.staticSuctionHead);
+  const hf = requireNonNegative("suctionLoss", input.suctionLoss);
+  return requireFiniteResult("input", (p - pv) / (rho * G0) + z - hf);
+}
+
+/** Inputs to {@link operatingFigures}. */
+export interface FiguresInput {
+  curve: PumpCurve | PumpCurveInput;
+  /** Operating flow, m³/s. */
+  flow: number;
+  /** Operating head, m (default: curve head at the flow). */
+  head?: number;
+  fluid: Fluid;
+  /** Suction conditions for NPSHa (Pa absolute, m). */
+  suction?: { surfacePressure: number; staticSuctionHead: number; suctionLoss: number };
+  /** Required NPSH margin ratio (dimensionless, default 1.1). */
+  requiredMargin?: number;
+  /** Motor: rating W, service factor (dimensionless, default 1.0). */
+  motor?: { rating: number; serviceFactor?: number };
+  /** Energy: hours per year h, tariff currency per kWh, motor and drive efficiencies (fractions, default 1). */
+  energy?: { hoursPerYear: number; tariffPerKWh: number; motorEfficiency?: number; driveEfficiency?: number };
+}
+
+/** Figures at the operating point (SI). */
+export interface OperatingFigures {
+  /** m³/s */
+  flow: number;
+  /** m */
+  head: number;
+  /** fraction, null when the curve has neither efficiency nor power */
+  efficiency: number | null;
+  /** W */
+  hydraulicPower: number;
+  /** W, null when unknown */
+  shaftPower: number | null;
+  bep: BestEfficiencyPoint | null;
+  /** Q/Q_BEP (dimensionless), null without BEP */
+  bepRatio: number | null;
+  /** Inside the preferred operating region (70–120 % of BEP flow), null without BEP */
+  inPor: boolean | null;
+  npsh: {
+    /** m */
+    available: number;
+    /** m, null when the curve has no NPSHr here */
+    required: number | null;
+    /** NPSHa/NPSHr (dimensionless) */
+    marginRatio: number | null;
+    requiredMargin: number;
+    status: "ok" | "low-margin" | "cavitation-risk" | "unknown";
+  } | null;
+  /** Largest shaft power on the whole curve for this fluid: W at flow m³/s. */
+  maxPower: { power: number; flow: number } | null;
+  motor: { rating: number; serviceFactor: number; limit: number; nonOverloading: boolean | null; loadAtDuty: number | null } | null;
+  energy: { inputPower: number; annualEnergy: number; annualEnergyKWh: number; annualCost: number } | null;
+  warnings: EngineWarning[];
+}
+
+/**
+ * Largest shaft power anywhere on the curve (knots plus 200 samples), W, for a fluid density.
+ * @param curve pump curve (prepared or raw; SI)
+ * @param density fluid density, kg/m³
+ */
+export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number): { power: number; flow: number } | null {
+  const c = ensurePumpCurve(curve);
+  requirePositive("density", density);
+  let best: { power: number; flow: number } | null = null;
+  const consider = (q: number) => {
+    const p = shaftPowerAt(c, q, density);
+    if (p !== null && Number.isFinite(p) && (!best || p > best.power)) best = { power: p, flow: q };
+  };
+  for (const q of c.head.x) consider(q);
+  const N = 200;
+  for (let i = 0; i <= N; i++) consider(c.flowMin + ((c.flowMax - c.flowMin) * i) / N);
+  return best;
+}
+
+/**
+ * All figures at an operating point.
+ * @param input curve, flow m³/s, head m, fluid (SI), suction (Pa absolute, m), motor (W), energy (h, currency/kWh, fractions)
+ */
+export function operatingFigures(input: FiguresInput): OperatingFigures {
+  if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const c = ensurePumpCurve(input.curve);
+  const fluid = checkFluid(input.fluid);
+  const flow = requireNonNegative("flow", input.flow);
+  const curveHead = evalCubic(c.head, flow);
+  if (curveHead === null) throw new EngineInputError("flow", `is outside the curve (${c.flowMin}–${c.flowMax} m³/s)`);
+  const head = input.head === undefined ? curveHead : requireNonNegative("head", input.head);
+  const warnings: EngineWarning[] = [];
+  const rho = fluid.density;
+  const hydraulicPower = rho * G0 * flow * head;
+  const efficiency = efficiencyAt(c, flow);
+  let shaftPower = shaftPowerAt(c, flow, rho);
+  if (shaftPower === null && flow === 0) shaftPower = null;
+  if (efficiency === null) warnings.push({ code: "no-efficiency", message: "curve gives neither efficiency nor power: power figures unavailable" });
+  const bep = c.bep;
+  const bepRatio = bep ? flow / bep.flow : null;
+  const inPor = c.por ? flow >= c.por.min && flow <= c.por.max : null;
+  if (inPor === false) warnings.push({ code: "outside-por", message: `operating at ${Math.round((bepRatio ?? 0) * 100)} % of BEP flow, outside the preferred operating region (70–120 %)` });
+
+  let npsh: OperatingFigures["npsh"] = null;
+  const requiredMargin = requirePositive("requiredMargin", input.requiredMargin ?? DEFAULT_NPSH_MARGIN);
+  if (input.suction) {
+    const available = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure,
+      density: rho, staticSuctionHead: input.suction.staticSuctionHead, suctionLoss: input.suction.suctionLoss });
+    const required = npshrAt(c, flow);
+    const marginRatio = required !== null && required > 0 ? available / required : null;
+    let status: "ok" | "low-margin" | "cavitation-risk" | "unknown" = "unknown";
+    if (required !== null) status = available < required ? "cavitation-risk" : (marginRatio as number) < requiredMargin ? "low-margin" : "ok";
+    if (available <= 0) status = "cavitation-risk";
+    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${available.toFixed(2)} m is below NPSHr${required !== null ? ` ${required.toFixed(2)} m` : ""}: cavitation risk` });
+    else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${(marginRatio as number).toFixed(2)} is below the required ${requiredMargin}` });
+    else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
+    npsh = { available, required, marginRatio, requiredMargin, status };
+  }
+
+  const maxPower = maxShaftPower(c, rho);
+  let motor: OperatingFigures["motor"] = null;
+  if (input.motor) {
+    const rating = requirePositive("motor.rating", input.motor.rating);
+    const serviceFactor = requirePositive("motor.serviceFactor", input.motor.serviceFactor ?? 1);
+    const limit = rating * serviceFactor;
+    const nonOverloading = maxPower ? maxPower.power <= limit : null;
+    if (nonOverloading === false) warnings.push({ code: "motor-overload", message: `largest power on the curve ${(maxPower!.power / 1000).toFixed(2)} kW exceeds motor rating × service factor ${(limit / 1000).toFixed(2)} kW` });
+    motor = { rating, serviceFactor, limit, nonOverloading, loadAtDuty: shaftPower !== null ? shaftPower / rating : null };
+  }
+
+  let energy: OperatingFigures["energy"] = null;
+  if (input.energy) {
+    const hours = requireNonNegative("energy.hoursPerYear", input.energy.hoursPerYear);
+    if (hours > 8784) throw new EngineInputError("energy.hoursPerYear", "cannot exceed 8784 h");
+    const tariff = requireNonNegative("energy.tariffPerKWh", input.energy.tariffPerKWh);
+    const me = requirePositive("energy.motorEfficiency", input.energy.motorEfficiency ?? 1);
+    const de = requirePositive("energy.driveEfficiency", input.energy.driveEfficiency ?? 1);
+    if (me > 1 || de > 1) throw new EngineInputError("energy.motorEfficiency", "efficiencies are fractions 0–1");
+    if (shaftPower !== null) {
+      const inputPower = shaftPower / (me * de);
+      const annualEnergy = inputPower * hours * 3600;
+      const annualEnergyKWh = annualEnergy / 3.6e6;
+      energy = { inputPower, annualEnergy, annualEnergyKWh, annualCost: annualEnergyKWh * tariff };
+    }
+  }
+  return requireFiniteResult("input", { flow, head, efficiency, hydraulicPower, shaftPower, bep, bepRatio, inPor, npsh, maxPower, motor, energy, warnings });
+}

@@ -1,0 +1,127 @@
+/**
+ * Darcy friction factor correlations and the Hazen-Williams loss formula: pure formulas,
+ * no validation (callers go through {@link ./headLoss.ts} or the registry, which validate
+ * and warn). Darcy f is dimensionless; Re and ε/D are dimensionless.
+ */
+
+/** ln(10)/18.574 to 40 digits (Clamond 2009). */
+const CL_X1 = 0.1239681863354175460160858261654858382699;
+/** ln(ln(10)/5.02) (Clamond 2009). */
+const CL_X2 = 0.7793974884556819406441139701653776731705;
+/** (ln(10)/2)² (Clamond 2009). */
+const CL_F = 1.325474527619599502640416597148504422899;
+
+/**
+ * Colebrook (1939) equation 1/√f = −2·log10(ε/(3.7D) + 2.51/(Re·√f)), solved to machine
+ * precision with D. Clamond's algorithm (Ind. Eng. Chem. Res. 48 (2009) 3665–3671: two
+ * fourth-order iterations on the Lambert-W-type form). Source of the equation: C. F.
+ * Colebrook, J. Inst. Civ. Eng. 11 (1939) 133–156. Turbulent flow, Re ≳ 4000; the
+ * algorithm itself works for Re > ~10 and any ε/D ≥ 0.
+ * @param reynolds Reynolds number (dimensionless)
+ * @param relativeRoughness ε/D (dimensionless)
+ */
+export function colebrook(reynolds: number, relativeRoughness: number): number {
+  // Clamond's two iterations with E = N/D substituted so each costs one division:
+  // F ← F − (D + E/2)·E·X1F / (D + E(1 + E/3)) = F − (D² + N/2)·N·X1F / (D³ + N·D + N²/3).
+  const X1 = relativeRoughness * reynolds * CL_X1;
+  const X2 = Math.log(reynolds) - CL_X2;
+  let F = X2 - 0.2;
+  let X1F = X1 + F;
+  let D = 1 + X1F;
+  let N = Math.log(X1F) - 0.2;
+  F -= ((D * D + 0.5 * N) * N * X1F) / (D * D * D + N * D + (N * N) / 3);
+  X1F = X1 + F;
+  D = 1 + X1F;
+  N = Math.log(X1F) + F - X2;
+  const A = (D * D + 0.5 * N) * N * X1F;
+  const B = D * D * D + N * D + N * N * (1 / 3);
+  const invF = B / (B * F - A);
+  return CL_F * invF * invF;
+}
+
+/**
+ * Residual of the Colebrook equation, 1/√f + 2·log10(ε/(3.7D) + 2.51/(Re√f)); zero at the
+ * solution. Used by tests and for diagnostics.
+ * @param f Darcy friction factor (dimensionless)
+ * @param reynolds Reynolds number (dimensionless)
+ * @param relativeRoughness ε/D (dimensionless)
+ */
+export function colebrookResidual(f: number, reynolds: number, relativeRoughness: number): number {
+  const s = 1 / Math.sqrt(f);
+  return s + 2 * Math.log10(relativeRoughness / 3.7 + (2.51 / reynolds) * s);
+}
+
+/**
+ * Swamee & Jain (1976), J. Hydraul. Div. ASCE 102(5): f = 0.25/[log10(ε/(3.7D) + 5.74/Re^0.9)]².
+ * Stated validity 5000 ≤ Re ≤ 1e8, 1e-6 ≤ ε/D ≤ 1e-2 (within ~1 % of Colebrook).
+ * @param reynolds Reynolds number (dimensionless)
+ * @param relativeRoughness ε/D (dimensionless)
+ */
+export function swameeJain(reynolds: number, relativeRoughness: number): number {
+  const l = Math.log10(relativeRoughness / 3.7 + 5.74 / Math.pow(reynolds, 0.9));
+  return 0.25 / (l * l);
+}
+
+/**
+ * Haaland (1983), J. Fluids Eng. 105: 89–90: 1/√f = −1.8·log10[(ε/(3.7D))^1.11 + 6.9/Re].
+ * Stated validity 4000 ≤ Re ≤ 1e8, 1e-6 ≤ ε/D ≤ 0.05 (within ~2 % of Colebrook).
+ * @param reynolds Reynolds number (dimensionless)
+ * @param relativeRoughness ε/D (dimensionless)
+ */
+export function haaland(reynolds: number, relativeRoughness: number): number {
+  const x = -1.8 * Math.log10(Math.pow(relativeRoughness / 3.7, 1.11) + 6.9 / reynolds);
+  return 1 / (x * x);
+}
+
+/**
+ * Churchill (1977), Chem. Eng. 84(24): 91–92, one formula for laminar, transition and
+ * turbulent flow: f = 8[(8/Re)^12 + (A+B)^−1.5]^(1/12), A = [2.457 ln(1/((7/Re)^0.9 +
+ * 0.27 ε/D))]^16, B = (37530/Re)^16. All Re > 0; ε/D up to ~0.05.
+ * @param reynolds Reynolds number (dimensionless)
+ * @param relativeRoughness ε/D (dimensionless)
+ */
+export function churchill(reynolds: number, relativeRoughness: number): number {
+  const a = 2.457 * Math.log(Math.pow(7 / reynolds, 0.9) + 0.27 * relativeRoughness);
+  const a2 = a * a, a4 = a2 * a2, a8 = a4 * a4;
+  const A = a8 * a8;
+  const b = 37530 / reynolds;
+  const b2 = b * b, b4 = b2 * b2, b8 = b4 * b4;
+  const B = b8 * b8;
+  const c = 8 / reynolds;
+  const c2 = c * c, c4 = c2 * c2;
+  const C = c4 * c4 * c4;
+  return 8 * Math.pow(C + 1 / Math.pow(A + B, 1.5), 1 / 12);
+}
+
+/**
+ * Laminar (Hagen-Poiseuille) Darcy friction factor f = 64/Re, for Re ≲ 2000.
+ * @param reynolds Reynolds number (dimensionless)
+ */
+export function laminar(reynolds: number): number {
+  return 64 / reynolds;
+}
+
+/**
+ * Hazen-Williams head loss, SI form (common practice): hf = 10.67·L·Q^1.852/(C^1.852·D^4.87).
+ * Empirical, for water at ordinary temperatures in turbulent flow.
+ * @param flow volumetric flow, m³/s
+ * @param diameter inner diameter, m
+ * @param length pipe length, m
+ * @param c Hazen-Williams roughness coefficient C (dimensionless in this SI form)
+ * @returns head loss, m
+ */
+export function hazenWilliamsHeadLoss(flow: number, diameter: number, length: number, c: number): number {
+  return (10.67 * length * Math.pow(flow, 1.852)) / (Math.pow(c, 1.852) * Math.pow(diameter, 4.87));
+}
+
+/**
+ * Fully turbulent (fully rough) Darcy f from the rough-pipe limit of Colebrook,
+ * f = 0.25/[log10(ε/(3.7D))]² — the basis of the fT column in Crane TP-410 (clean
+ * commercial steel, ε = 0.045 mm). Agrees with the fT values printed there to about 3 %.
+ * @param diameter inner diameter, m
+ * @param roughness absolute roughness, m (default 0.045 mm, commercial steel)
+ */
+export function fullyRoughFrictionFactor(diameter: number, roughness = 0.045e-3): number {
+  const l = Math.log10(roughness / diameter / 3.7);
+  return 0.25 / (l * l);
+}

@@ -1,0 +1,65 @@
+/**
+ * Dutymark hydraulic engine — public face. Pure TypeScript, SI units inside
+ * (m³/s, m, Pa, W, m, kg/m³, Pa·s, m²/s; temperature in °C at the surface), no framework
+ * and no platform APIs: runs in the server and the browser alike. See README.md.
+ */
+export { EngineInputError, type EngineWarning } from "./errors.ts";
+export {
+  G0, STANDARD_ATMOSPHERE, UNITS, UNIT_SYSTEMS, FACTORS, toSI, fromSI, convert, unitDef, unitLabel,
+  type Quantity, type UnitDef, type UnitPreset,
+} from "./units.ts";
+export {
+  waterProperties, fluidAt, customFluid, checkFluid, if97Region1Density, if97SaturationPressure, iapwsViscosity,
+  WATER_RANGE_C, type Fluid, type FluidSpec, type WaterProperties,
+} from "./fluids.ts";
+export {
+  PIPE_TABLES, MATERIALS, pipeTable, innerDiameter, material, typedDiameter,
+  type PipeSize, type PipeTable, type Material,
+} from "./pipes.ts";
+export {
+  colebrook, colebrookResidual, swameeJain, haaland, churchill, laminar, hazenWilliamsHeadLoss, fullyRoughFrictionFactor,
+} from "./friction.ts";
+export {
+  CORRELATIONS, FRICTION_METHODS, findCorrelation,
+  type Correlation, type DarcyCorrelation, type HeadLossCorrelation, type FrictionMethod, type Range,
+} from "./registry.ts";
+export {
+  frictionFactor, frictionFactorDetailed, pipeHeadLoss, regimeOf, LAMINAR_MAX_RE, TURBULENT_MIN_RE,
+  type Regime, type FrictionResult, type LossModel, type PipeLossInput, type PipeLossResult,
+} from "./headLoss.ts";
+export {
+  FITTINGS, CRANE_FT, fitting, fittingK, fittingFrictionFactor, sumK, suddenEnlargementK, suddenContractionK,
+  type FittingDef, type FittingUse, type KModel,
+} from "./fittings.ts";
+export {
+  prepareSystem, systemHead, systemHeadFunction, systemCurve, suctionLoss,
+  type PipeRunSpec, type StaticHeadSpec, type SystemSpec, type SystemCase, type PreparedSystem,
+  type SystemHeadResult, type SystemCurve, type RunsLoss,
+} from "./system.ts";
+export { monotoneCubic, evalCubic, type MonotoneCubic } from "./interp.ts";
+export { brent, bisection, type RootResult } from "./roots.ts";
+export {
+  createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, flowsAtHead, sampleCurve, POR_FRACTION,
+  type PumpPoint, type PumpCurveInput, type PumpCurve, type BestEfficiencyPoint, type SampledCurve,
+} from "./pumpCurve.ts";
+export {
+  operatingPoint, operatingPointInSystem, solveOperatingPoint,
+  type OperatingPointResult, type OperatingStatus, type DutyPoint, type SimpleSystem,
+} from "./operatingPoint.ts";
+export {
+  scaleBySpeed, scaleByTrim, speedForDuty, trimForDuty, affinityPoint, MAX_TRIM_FRACTION,
+  type TrimLaw, type ScaledCurve, type RatioSolution,
+} from "./affinity.ts";
+export { combinePumps, flowPerPump, type Arrangement, type CombinedCurve } from "./multiple.ts";
+export {
+  operatingFigures, npshAvailable, maxShaftPower, DEFAULT_NPSH_MARGIN, NPSH_MARGIN_GUIDANCE,
+  type FiguresInput, type OperatingFigures,
+} from "./figures.ts";
+export {
+  fieldCheck, gaugeTdh, withinGrade, TOLERANCE_GRADES,
+  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type ToleranceGrade,
+} from "./fieldCheck.ts";
+export {
+  prepareSearchIndex, searchDuty,
+  type CurveSet, type SearchIndex, type SearchOptions, type Candidate, type SearchResult,
+} from "./search.ts";

@@ -1,0 +1,64 @@
+/**
+ * Several identical pumps (common practice): in parallel, flows add at equal head; in
+ * series, heads add at equal flow. Duty/standby: only duty pumps count — standby pumps
+ * add no capacity. Power adds; efficiency is that of one pump at its own share; NPSHr is
+ * that of one pump at its own flow (parallel) or of the first pump (series).
+ */
+import { EngineInputError, requireInteger, type EngineWarning } from "./errors.ts";
+import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
+
+/** How pumps are combined. */
+export interface Arrangement {
+  /** "parallel" or "series". */
+  mode: "parallel" | "series";
+  /** Pumps running (count). */
+  duty: number;
+  /** Installed standby pumps, not running (count). */
+  standby?: number;
+}
+
+/** Result of combining pumps. */
+export interface CombinedCurve {
+  curve: PumpCurve;
+  /** Pumps counted in the combined curve (count). */
+  running: number;
+  /** Installed pumps (count). */
+  installed: number;
+  warnings: EngineWarning[];
+}
+
+/**
+ * Combined curve of identical pumps.
+ * @param curve one pump's curve (prepared or raw; SI)
+ * @param arrangement mode and counts (unitless; counts dimensionless)
+ */
+export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arrangement): CombinedCurve {
+  const c = ensurePumpCurve(curve);
+  if (!arrangement || typeof arrangement !== "object") throw new EngineInputError("arrangement", "is required");
+  const n = requireInteger("arrangement.duty", arrangement.duty, 1);
+  const standby = requireInteger("arrangement.standby", arrangement.standby ?? 0, 0);
+  const mode = arrangement.mode;
+  if (mode !== "parallel" && mode !== "series") throw new EngineInputError("arrangement.mode", "must be 'parallel' or 'series'");
+  const points: PumpPoint[] = c.points.map((p) => {
+    const out: PumpPoint = mode === "parallel" ? { flow: p.flow * n, head: p.head } : { flow: p.flow, head: p.head * n };
+    if (p.efficiency !== undefined) out.efficiency = p.efficiency;
+    if (p.power !== undefined) out.power = p.power * n;
+    if (p.npshr !== undefined) out.npshr = p.npshr;
+    return out;
+  });
+  const combined = createPumpCurve({ points, speed: c.speed ?? undefined, impellerDiameter: c.impellerDiameter ?? undefined,
+    minDiameter: c.minDiameter ?? undefined, maxDiameter: c.maxDiameter ?? undefined, powerDensity: c.powerDensity, riseTolerance: 1 });
+  const warnings: EngineWarning[] = [];
+  if (standby > 0) warnings.push({ code: "standby-not-counted", message: `${standby} standby pump(s) installed; only the ${n} duty pump(s) count` });
+  return { curve: combined, running: n, installed: n + standby, warnings };
+}
+
+/**
+ * Flow through each pump for a combined operating flow, m³/s (parallel: Q/n; series: Q).
+ * @param totalFlow combined flow, m³/s
+ * @param arrangement mode and counts (unitless; counts dimensionless)
+ */
+export function flowPerPump(totalFlow: number, arrangement: Arrangement): number {
+  const n = requireInteger("arrangement.duty", arrangement.duty, 1);
+  return arrangement.mode === "parallel" ? totalFlow / n : totalFlow;
+}

@@ -1,0 +1,318 @@
+/**
+ * Pump curves from points, for one speed and impeller diameter. Points are validated
+ * (finite; flow ≥ 0 strictly increasing; head ≥ 0 and not rising with flow by more than a
+ * tolerance — drooping curves within it are accepted and flagged), then interpolated with
+ * monotone cubics (Fritsch & Carlson 1980, see interp.ts): no oscillation, defined only from
+ * the first to the last point (outside → null).
+ *
+ * Efficiency is a fraction (0–1). Power on a curve is shaft power measured with a test
+ * liquid of density `powerDensity` (default 1000 kg/m³, water); shaft power for another
+ * fluid scales with density. Whichever of efficiency or power is given, the other is derived
+ * from P = ρ·g₀·Q·H/η (definition), so both paths give the same figures.
+ * BEP = the point of highest efficiency (data point; the interpolant peaks there).
+ * POR = 70–120 % of BEP flow (ANSI/HI 9.6.3, from memory).
+ */
+import { EngineInputError, requireFinite, requirePositive, type EngineWarning } from "./errors.ts";
+import { evalCubic, monotoneCubic, type MonotoneCubic } from "./interp.ts";
+import { brent } from "./roots.ts";
+import { G0 } from "./units.ts";
+
+/** One point of a published curve (SI). */
+export interface PumpPoint {
+  /** Flow, m³/s. */
+  flow: number;
+  /** Head, m. */
+  head: number;
+  /** Efficiency, fraction 0–1 (optional). */
+  efficiency?: number;
+  /** Shaft power, W (optional). */
+  power?: number;
+  /** NPSH required, m (optional). */
+  npshr?: number;
+}
+
+/** A curve set as given. */
+export interface PumpCurveInput {
+  points: readonly PumpPoint[];
+  /** Rotational speed, rpm (optional). */
+  speed?: number;
+  /** Impeller diameter of this curve, m (optional). */
+  impellerDiameter?: number;
+  /** Smallest impeller diameter the model allows, m (optional). */
+  minDiameter?: number;
+  /** Largest impeller diameter the model allows, m (optional). */
+  maxDiameter?: number;
+  /** Density the power column refers to, kg/m³ (default 1000). */
+  powerDensity?: number;
+  /** Allowed rise of head with flow, as a fraction of the first point's head (default 0.10). */
+  riseTolerance?: number;
+}
+
+/** Preferred operating region as a fraction of BEP flow (ANSI/HI 9.6.3, from memory). */
+export const POR_FRACTION = { min: 0.7, max: 1.2 } as const;
+
+/** Best efficiency point. */
+export interface BestEfficiencyPoint {
+  /** m³/s */
+  flow: number;
+  /** m */
+  head: number;
+  /** fraction 0–1 */
+  efficiency: number;
+}
+
+/** A validated, interpolated curve. */
+export interface PumpCurve {
+  points: readonly PumpPoint[];
+  /** First and last flow, m³/s. */
+  flowMin: number;
+  flowMax: number;
+  /** Largest head on the curve, m. */
+  headMax: number;
+  /** Head at the last point, m. */
+  headAtMaxFlow: number;
+  head: MonotoneCubic;
+  efficiency: MonotoneCubic | null;
+  power: MonotoneCubic | null;
+  npshr: MonotoneCubic | null;
+  speed: number | null;
+  impellerDiameter: number | null;
+  minDiameter: number | null;
+  maxDiameter: number | null;
+  powerDensity: number;
+  /** Head rises from shutoff before falling. */
+  drooping: boolean;
+  /** Head at zero flow, m, when the curve starts at zero flow; else null. */
+  shutoffHead: number | null;
+  bep: BestEfficiencyPoint | null;
+  /** Preferred operating region, m³/s. */
+  por: { min: number; max: number } | null;
+  warnings: EngineWarning[];
+}
+
+function column(points: readonly PumpPoint[], key: "efficiency" | "power" | "npshr"): MonotoneCubic | null {
+  const xs: number[] = [], ys: number[] = [];
+  for (const p of points) {
+    const v = p[key];
+    if (v !== undefined && v !== null) { xs.push(p.flow); ys.push(v); }
+  }
+  return xs.length >= 2 ? monotoneCubic(xs, ys) : null;
+}
+
+/**
+ * Validates points and builds the interpolated curve.
+ * @param input points (flow m³/s, head m, efficiency fraction, power W, NPSHr m), speed rpm, diameters m, powerDensity kg/m³
+ */
+export function createPumpCurve(input: PumpCurveInput): PumpCurve {
+  if (!input || typeof input !== "object") throw new EngineInputError("curve", "is required");
+  const pts = input.points;
+  if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
+  if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
+  const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? 0.1);
+  if (riseTol < 0 || riseTol > 1) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
+  const warnings: EngineWarning[] = [];
+  const clean: PumpPoint[] = [];
+  for (let i = 0; i < pts.length; i++) {
+    const p = pts[i];
+    if (!p || typeof p !== "object") throw new EngineInputError(`points[${i}]`, "must be a point");
+    const flow = requireFinite(`points[${i}].flow`, p.flow);
+    const head = requireFinite(`points[${i}].head`, p.head);
+    if (flow < 0) throw new EngineInputError(`points[${i}].flow`, `must not be negative (got ${flow})`);
+    if (head < 0) throw new EngineInputError(`points[${i}].head`, `must not be negative (got ${head})`);
+    if (i > 0) {
+      const prev = clean[i - 1].flow;
+      if (flow === prev) throw new EngineInputError(`points[${i}].flow`, `duplicate flow ${flow} (same as points[${i - 1}])`);
+      if (flow < prev) throw new EngineInputError(`points[${i}].flow`, "flows must be strictly increasing");
+    }
+    const q: PumpPoint = { flow, head };
+    if (p.efficiency !== undefined && p.efficiency !== null) {
+      const e = requireFinite(`points[${i}].efficiency`, p.efficiency);
+      if (e < 0 || e > 1) throw new EngineInputError(`points[${i}].efficiency`, `is a fraction 0–1 (got ${e})`);
+      if (e === 0 && flow > 0) throw new EngineInputError(`points[${i}].efficiency`, "must be above zero where flow is above zero");
+      q.efficiency = e;
+    }
+    if (p.power !== undefined && p.power !== null) q.power = requirePositive(`points[${i}].power`, p.power);
+    if (p.npshr !== undefined && p.npshr !== null) q.npshr = requirePositive(`points[${i}].npshr`, p.npshr);
+    clean.push(q);
+  }
+  const h0 = clean[0].head;
+  if (!(h0 > 0)) throw new EngineInputError("points[0].head", "the first point's head must be above zero");
+  let runningMin = h0;
+  let headMax = h0;
+  for (let i = 1; i < clean.length; i++) {
+    const h = clean[i].head;
+    if (h - runningMin > riseTol * h0) {
+      throw new EngineInputError(`points[${i}].head`,
+        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${h} m after ${runningMin} m)`);
+    }
+    runningMin = Math.min(runningMin, h);
+    headMax = Math.max(headMax, h);
+  }
+  const drooping = headMax > h0 * (1 + 1e-9);
+  if (drooping) warnings.push({ code: "drooping-curve", message: "head rises from shutoff before falling (drooping curve): more than one operating point is possible" });
+  const opt = (name: string, v: number | undefined) => (v === undefined || v === null ? null : requirePositive(name, v));
+  const powerDensity = requirePositive("powerDensity", input.powerDensity ?? 1000);
+  const curve: PumpCurve = {
+    points: clean,
+    flowMin: clean[0].flow,
+    flowMax: clean[clean.length - 1].flow,
+    headMax,
+    headAtMaxFlow: clean[clean.length - 1].head,
+    head: monotoneCubic(clean.map((p) => p.flow), clean.map((p) => p.head)),
+    efficiency: column(clean, "efficiency"),
+    power: column(clean, "power"),
+    npshr: column(clean, "npshr"),
+    speed: opt("speed", input.speed),
+    impellerDiameter: opt("impellerDiameter", input.impellerDiameter),
+    minDiameter: opt("minDiameter", input.minDiameter),
+    maxDiameter: opt("maxDiameter", input.maxDiameter),
+    powerDensity,
+    drooping,
+    shutoffHead: clean[0].flow === 0 ? h0 : null,
+    bep: null,
+    por: null,
+    warnings,
+  };
+  if (curve.minDiameter !== null && curve.maxDiameter !== null && curve.minDiameter > curve.maxDiameter) {
+    throw new EngineInputError("minDiameter", "must not exceed maxDiameter");
+  }
+  // BEP: highest efficiency among the points (given, or derived from power).
+  let best: BestEfficiencyPoint | null = null;
+  for (const p of clean) {
+    const e = p.efficiency ?? (p.power !== undefined && p.flow > 0 ? (powerDensity * G0 * p.flow * p.head) / p.power : undefined);
+    if (e !== undefined && e > 0 && (!best || e > best.efficiency)) best = { flow: p.flow, head: p.head, efficiency: e };
+  }
+  if (best && best.efficiency > 1) {
+    warnings.push({ code: "efficiency-above-one", message: "power column implies efficiency above 100 %: check power units" });
+  }
+  if (best && best.flow > 0) {
+    curve.bep = best;
+    curve.por = { min: POR_FRACTION.min * best.flow, max: POR_FRACTION.max * best.flow };
+  }
+  if (!curve.efficiency && !curve.power) warnings.push({ code: "no-efficiency", message: "curve has neither efficiency nor power: power figures unavailable" });
+  return curve;
+}
+
+function asCurve(c: PumpCurve | PumpCurveInput): PumpCurve {
+  return "head" in c && (c as PumpCurve).head && "x" in (c as PumpCurve).head ? (c as PumpCurve) : createPumpCurve(c as PumpCurveInput);
+}
+
+/**
+ * Head at a flow; null outside the curve.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param flow flow, m³/s
+ */
+export function headAt(curve: PumpCurve | PumpCurveInput, flow: number): number | null {
+  return evalCubic(asCurve(curve).head, requireFinite("flow", flow));
+}
+
+/**
+ * Efficiency (fraction) at a flow: from the efficiency column, else derived from power.
+ * Null outside the curve, or where neither column covers the flow.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param flow flow, m³/s
+ */
+export function efficiencyAt(curve: PumpCurve | PumpCurveInput, flow: number): number | null {
+  const c = asCurve(curve);
+  requireFinite("flow", flow);
+  if (c.efficiency) return evalCubic(c.efficiency, flow);
+  if (c.power) {
+    const p = evalCubic(c.power, flow);
+    const h = evalCubic(c.head, flow);
+    if (p === null || h === null || p <= 0) return null;
+    return (c.powerDensity * G0 * flow * h) / p;
+  }
+  return null;
+}
+
+/**
+ * Shaft power at a flow for a fluid of this density, W: from the power column scaled by
+ * density, else ρ·g₀·Q·H/η. Null outside the curve or where η = 0 and no power column.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param flow flow, m³/s
+ * @param density fluid density, kg/m³
+ */
+export function shaftPowerAt(curve: PumpCurve | PumpCurveInput, flow: number, density: number): number | null {
+  const c = asCurve(curve);
+  requireFinite("flow", flow);
+  requirePositive("density", density);
+  if (c.power) {
+    const p = evalCubic(c.power, flow);
+    return p === null ? null : (p * density) / c.powerDensity;
+  }
+  if (c.efficiency) {
+    const e = evalCubic(c.efficiency, flow);
+    const h = evalCubic(c.head, flow);
+    if (e === null || h === null || !(e > 0)) return null;
+    return (density * G0 * flow * h) / e;
+  }
+  return null;
+}
+
+/**
+ * NPSH required at a flow, m; null where the NPSHr column does not cover the flow.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param flow flow, m³/s
+ */
+export function npshrAt(curve: PumpCurve | PumpCurveInput, flow: number): number | null {
+  const c = asCurve(curve);
+  return c.npshr ? evalCubic(c.npshr, requireFinite("flow", flow)) : null;
+}
+
+/**
+ * Flows at which the curve delivers a head (all of them, for drooping curves), m³/s.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param head head, m
+ */
+export function flowsAtHead(curve: PumpCurve | PumpCurveInput, head: number): number[] {
+  const c = asCurve(curve);
+  requireFinite("head", head);
+  const g = (q: number) => (evalCubic(c.head, q) as number) - head;
+  const out: number[] = [];
+  const x = c.head.x;
+  for (let i = 0; i < x.length - 1; i++) {
+    // Each Fritsch-Carlson interval is monotone: at most one root inside it.
+    const r = brent(g, x[i], x[i + 1], 1e-14 * Math.max(x[i + 1], 1e-12));
+    if (r && (out.length === 0 || Math.abs(out[out.length - 1] - r.x) > 1e-12 * x[x.length - 1])) out.push(r.x);
+  }
+  return out;
+}
+
+/** A sampled curve for charts (SI arrays, null where a column is missing). */
+export interface SampledCurve {
+  flows: number[];
+  head: number[];
+  efficiency: (number | null)[];
+  power: (number | null)[];
+  npshr: (number | null)[];
+}
+
+/**
+ * Samples the curve at evenly spaced flows from the first to the last point.
+ * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
+ * @param points number of samples (count, dimensionless; default 61)
+ * @param density fluid density for the power column, kg/m³ (default the curve's powerDensity)
+ */
+export function sampleCurve(curve: PumpCurve | PumpCurveInput, points = 61, density?: number): SampledCurve {
+  const c = asCurve(curve);
+  const n = Math.round(requireFinite("points", points));
+  if (n < 2 || n > 10_000) throw new EngineInputError("points", "must be between 2 and 10000");
+  const rho = density ?? c.powerDensity;
+  const out: SampledCurve = { flows: [], head: [], efficiency: [], power: [], npshr: [] };
+  for (let i = 0; i < n; i++) {
+    const q = i === n - 1 ? c.flowMax : c.flowMin + ((c.flowMax - c.flowMin) * i) / (n - 1);
+    out.flows.push(q);
+    out.head.push(evalCubic(c.head, q) as number);
+    out.efficiency.push(efficiencyAt(c, q));
+    out.power.push(shaftPowerAt(c, q, rho));
+    out.npshr.push(npshrAt(c, q));
+  }
+  return out;
+}
+
+/** Prepares a curve if it is raw; returns it unchanged if already prepared.
+ * @param curve the curve (prepared or raw; SI)
+ */
+export function ensurePumpCurve(curve: PumpCurve | PumpCurveInput): PumpCurve {
+  return asCurve(curve);
+}

@@ -1,0 +1,93 @@
+/** Tier 3 — duty-point search: correctness, agreement with affinity/trim, ranking reasons. */
+import { describe, expect, it } from "vitest";
+import { createPumpCurve, EngineInputError, headAt, prepareSearchIndex, scaleBySpeed, scaleByTrim, searchDuty, type CurveSet } from "./index.ts";
+import { generateCurveSets, makeCurve } from "./test/curveSets.ts";
+
+const M3H = 1 / 3600;
+const duty = { flow: 50 * M3H, head: 30 };
+
+// Hand-made sets around the duty (made-up data).
+const sets: CurveSet[] = [
+  // H(50 m³/h) ≈ 30.6 m: meets directly (within +5 %).
+  { id: "direct", curve: { points: makeCurve(38.25, 100 * M3H, 0.8), impellerDiameter: 0.2, minDiameter: 0.16 } },
+  // Much more head: needs a trim or slower speed.
+  { id: "big", curve: { points: makeCurve(40, 110 * M3H, 0.72), impellerDiameter: 0.22, minDiameter: 0.15, speed: 2900 } },
+  // Too small: rejected by envelope (max head 20 m).
+  { id: "small", curve: { points: makeCurve(20, 100 * M3H, 0.85) } },
+  // Too little flow: rejected (runout 40 m³/h).
+  { id: "narrow", curve: { points: makeCurve(60, 40 * M3H, 0.85) } },
+  // Bad curve (duplicate flow) is reported, not thrown.
+  { id: "broken", curve: { points: [{ flow: 0, head: 10 }, { flow: 0, head: 9 }] } },
+];
+
+describe("searchDuty", () => {
+  const index = prepareSearchIndex(sets);
+  const res = searchDuty(index, duty);
+
+  it("invalid sets are listed with the reason", () => {
+    expect(index.rejected.map((r) => r.id)).toEqual(["broken"]);
+    expect(index.rejected[0].reason).toMatch(/duplicate flow/);
+  });
+  it("envelope prefilter rejects sets that cannot reach the duty", () => {
+    expect(res.stats.rejectedByEnvelope).toBe(2);
+    expect(res.candidates.map((c) => c.id).sort()).toEqual(["big", "direct"]);
+  });
+  it("direct fit is classified direct; the large pump is trimmed (first feasible method)", () => {
+    const d = res.candidates.find((c) => c.id === "direct")!;
+    const b = res.candidates.find((c) => c.id === "big")!;
+    expect(d.method).toBe("direct");
+    expect(d.headAtDuty).toBeGreaterThanOrEqual(30);
+    expect(d.headAtDuty).toBeLessThanOrEqual(31.5);
+    expect(b.method).toBe("trim");
+  });
+  it("the trim found by search is the one scaleByTrim confirms (curve through the duty)", () => {
+    const b = res.candidates.find((c) => c.id === "big")!;
+    const trimmed = scaleByTrim(createPumpCurve(sets[1].curve as never), b.ratio).curve;
+    expect(headAt(trimmed, duty.flow)!).toBeCloseTo(30, 8);
+    expect(b.diameter!).toBeCloseTo(0.22 * b.ratio, 12);
+  });
+  it("speed-only search: the slowed curve passes through the duty", () => {
+    const s = searchDuty(index, duty, { methods: ["speed"] }).candidates.find((c) => c.id === "big")!;
+    expect(s.method).toBe("speed");
+    expect(headAt(scaleBySpeed(createPumpCurve(sets[1].curve as never), s.ratio).curve, duty.flow)!).toBeCloseTo(30, 8);
+    expect(s.speed!).toBeCloseTo(2900 * s.ratio, 9);
+  });
+  it("ranks by efficiency at duty and says why", () => {
+    expect(res.candidates[0].id).toBe("direct");
+    expect(res.candidates[0].rank).toBe(1);
+    expect(res.candidates[0].reason).toMatch(/#1 of 2: meets the duty directly/);
+    expect(res.candidates[0].reason).toMatch(/efficient at duty \(best found\)/);
+    expect(res.candidates[1].reason).toMatch(/points below best/);
+    expect(res.candidates[0].score).toBeGreaterThan(res.candidates[1].score);
+  });
+  it("NPSH available below NPSHr removes a candidate; a thin margin is reported", () => {
+    const r = searchDuty(index, duty, { npshAvailable: 2.0 }); // NPSHr at duty ≈ 2.0 for "direct", 1.8 for "big"
+    for (const c of r.candidates) expect(c.npshMargin!).toBeGreaterThanOrEqual(1);
+    const none = searchDuty(index, duty, { npshAvailable: 0.5 });
+    expect(none.candidates.length).toBe(0);
+  });
+  it("bad duty is a typed error", () => {
+    expect(() => searchDuty(index, { flow: 0, head: 30 })).toThrow(EngineInputError);
+    expect(() => searchDuty(index, { flow: 0.01, head: NaN })).toThrow(EngineInputError);
+  });
+});
+
+describe("searchDuty over 10 000 generated curve sets (size check; timing is in app/bench/engine.ts)", () => {
+  it("every candidate's (modified) curve meets the duty", () => {
+    const gen = generateCurveSets(10_000, 7);
+    const idx = prepareSearchIndex(gen);
+    expect(idx.entries.length).toBe(10_000);
+    const r = searchDuty(idx, { flow: 120 * M3H, head: 45 }, { limit: 10_000 });
+    expect(r.stats.searched).toBe(10_000);
+    expect(r.candidates.length).toBeGreaterThan(10);
+    const byId = new Map(gen.map((s) => [s.id, s]));
+    for (const c of r.candidates.slice(0, 200)) {
+      const base = createPumpCurve(byId.get(c.id)!.curve as never);
+      const cur = c.method === "speed" ? scaleBySpeed(base, c.ratio).curve : c.method === "trim" ? scaleByTrim(base, c.ratio).curve : base;
+      const h = headAt(cur, 120 * M3H)!;
+      expect(h).toBeGreaterThanOrEqual(45 * (1 - 1e-9));
+      expect(h).toBeLessThanOrEqual(45 * 1.05 * (1 + 1e-9));
+    }
+    for (let i = 1; i < r.candidates.length; i++) expect(r.candidates[i].score).toBeLessThanOrEqual(r.candidates[i - 1].score);
+  });
+});

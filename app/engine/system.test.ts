@@ -1,0 +1,79 @@
+/** Tier 3 — system curve consistency. */
+import { describe, expect, it } from "vitest";
+import { EngineInputError, fluidAt, G0, pipeHeadLoss, sumK, systemCurve, systemHead, suctionLoss, type SystemSpec } from "./index.ts";
+
+const fluid = fluidAt({ kind: "water" }, 20);
+const base: SystemSpec = {
+  fluid,
+  staticHead: { min: 8, max: 14 },
+  pressureDifference: 50_000,
+  suction: [{ length: 5, diameter: 0.1, roughness: 0.045e-3, agedRoughness: 0.5e-3, fittings: [{ id: "entrance-sharp" }, { id: "gate-valve-open" }], nominal: "4" }],
+  discharge: [
+    { length: 60, diameter: 0.08, roughness: 0.045e-3, agedRoughness: 0.5e-3, fittings: [{ id: "elbow-90-standard", count: 4 }, { id: "swing-check" }, { id: "exit" }], nominal: "3" },
+    { length: 40, diameter: 0.08, roughness: 0.045e-3, agedRoughness: 0.5e-3 },
+  ],
+};
+
+describe("system head", () => {
+  it("at zero flow: nominal static (mid of min/max) + Δp/(ρ·g₀)", () => {
+    const r = systemHead(base, 0);
+    expect(r.head).toBeCloseTo(11 + 50_000 / (fluid.density * G0), 12);
+    expect(r.suctionLoss).toBe(0);
+  });
+  it("pressure = ρ·g₀·H (definition)", () => {
+    const r = systemHead(base, 0.01);
+    expect(r.pressure).toBeCloseTo(fluid.density * G0 * r.head, 6);
+  });
+  it("runs in series add: two 50 m runs = one 100 m run of the same size (no fittings)", () => {
+    const one = systemHead({ fluid, discharge: [{ length: 100, diameter: 0.1, roughness: 1e-4 }] }, 0.02).head;
+    const two = systemHead({ fluid, discharge: [{ length: 50, diameter: 0.1, roughness: 1e-4 }, { length: 50, diameter: 0.1, roughness: 1e-4 }] }, 0.02).head;
+    expect(two).toBeCloseTo(one, 12);
+  });
+  it("fittings' ΣK is applied: loss equals Darcy-Weisbach with minorK = ΣK", () => {
+    const k = sumK([{ id: "elbow-90-standard", count: 4 }, { id: "swing-check" }, { id: "exit" }], 0.08, "3");
+    const direct = pipeHeadLoss({ flow: 0.01, diameter: 0.08, length: 60, roughness: 0.045e-3, minorK: k, kinematicViscosity: fluid.kinematicViscosity }).headLoss;
+    const r = systemHead(base, 0.01);
+    expect(r.dischargeRuns[0].headLoss).toBeCloseTo(direct, 12);
+  });
+  it("suction loss is the suction side only", () => {
+    const r = systemHead(base, 0.015);
+    expect(suctionLoss(base, 0.015).headLoss).toBeCloseTo(r.suctionLoss, 14);
+  });
+  it("closed loop: no static lift; head at zero flow = control head", () => {
+    const closed: SystemSpec = { ...base, mode: "closed-loop", controlHead: 6 };
+    expect(systemHead(closed, 0).head).toBe(6);
+    expect(systemHead(closed, 0).staticHead).toBe(0);
+    expect(systemHead(closed, 0.01).warnings.some((w) => w.parameter === "staticHead")).toBe(true);
+  });
+  it("Hazen-Williams loss model runs and warns outside its velocity range", () => {
+    const hw: SystemSpec = { fluid, lossModel: "hazen-williams", discharge: [{ length: 100, diameter: 0.05, roughness: 0, hazenWilliamsC: 150 }] };
+    const slow = systemHead(hw, 0.002);
+    const fast = systemHead(hw, 0.01); // 5.1 m/s
+    expect(slow.head).toBeGreaterThan(0);
+    expect(fast.warnings.some((w) => w.code === "outside-validity")).toBe(true);
+  });
+});
+
+describe("system curve and band", () => {
+  const c = systemCurve(base, { flowMax: 0.02, points: 21 });
+  it("rises with flow", () => {
+    for (let i = 1; i < c.flows.length; i++) expect(c.head[i]).toBeGreaterThan(c.head[i - 1]);
+  });
+  it("band: least lift & new pipe ≤ design ≤ most lift & aged pipe", () => {
+    for (let i = 0; i < c.flows.length; i++) {
+      expect(c.band.low[i]).toBeLessThanOrEqual(c.head[i] + 1e-12);
+      expect(c.band.high[i]).toBeGreaterThanOrEqual(c.head[i] - 1e-12);
+      expect(c.band.low[i]).toBe(c.corners.minNew[i]);
+      expect(c.band.high[i]).toBe(c.corners.maxAged[i]);
+    }
+    expect(c.band.high[0] - c.band.low[0]).toBeCloseTo(6, 12); // static range only at zero flow
+  });
+  it("Δp array = ρ·g₀·H", () => {
+    c.flows.forEach((_, i) => expect(c.pressure[i]).toBeCloseTo(fluid.density * G0 * c.head[i], 6));
+  });
+  it("bad ranges throw typed errors", () => {
+    expect(() => systemCurve(base, { flowMax: 0 })).toThrow(EngineInputError);
+    expect(() => systemCurve(base, { flowMax: 1, points: 1 })).toThrow(EngineInputError);
+    expect(() => systemHead({ ...base, staticHead: { min: 5, max: 2 } }, 0)).toThrow(EngineInputError);
+  });
+});

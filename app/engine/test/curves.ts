@@ -1,0 +1,32 @@
+// Shared test data: synthetic pump curves made up for the tests (not any vendor's data).
+import type { PumpPoint } from "../index.ts";
+
+export const M3H = 1 / 3600;
+
+/** A made-up 50 m³/h × 28 m end-suction style curve: [m³/h, m, efficiency, NPSHr m]. */
+export const SAMPLE_ROWS: [number, number, number, number][] = [
+  [0, 36, 0, 1.2], [10, 35.5, 0.35, 1.5], [20, 34.5, 0.55, 2.0], [30, 33, 0.68, 2.3], [40, 31, 0.75, 2.7],
+  [50, 28, 0.78, 3.2], [60, 24.5, 0.76, 4.0], [70, 20, 0.7, 5.0], [80, 14.5, 0.6, 6.3],
+];
+
+export function samplePoints(opts: { efficiency?: boolean; power?: boolean; npshr?: boolean } = {}): PumpPoint[] {
+  const { efficiency = true, power = false, npshr = true } = opts;
+  return SAMPLE_ROWS.map(([q, h, e, n]) => {
+    const p: PumpPoint = { flow: q * M3H, head: h };
+    if (efficiency) p.efficiency = e;
+    if (power && q > 0) p.power = (1000 * 9.80665 * q * M3H * h) / e;
+    if (npshr && q > 0) p.npshr = n;
+    return p;
+  });
+}
+
+/** Quadratic pump curve H = h0·(1 − (Q/qr)²) sampled at n points, with a parabolic efficiency. */
+export function quadraticPoints(h0: number, qr: number, n = 9, etaMax = 0.8, qBep = 0.6 * qr): PumpPoint[] {
+  const pts: PumpPoint[] = [];
+  for (let i = 0; i < n; i++) {
+    const q = (qr * i) / (n - 1);
+    const x = q / qBep;
+    pts.push({ flow: q, head: h0 * (1 - (q / qr) ** 2), efficiency: Math.max(0, etaMax * x * (2 - x)) || (i === 0 ? 0 : 0.05) });
+  }
+  return pts;
+}

@@ -1,0 +1,13 @@
+import type { Route } from "./+types/api.v1.calc.pipe-loss";
+import { calcAction, calcMethodNotAllowed } from "~/lib/calc-api.server";
+
+// POST /api/v1/calc/pipe-loss — public calculator (anonymous: rate-limited per address; Bearer token:
+// unlimited). Request and response fields are SI with the unit in the name; documented on /api.
+export async function action({ request }: Route.ActionArgs) {
+  return calcAction(request, "pipe-loss");
+}
+
+// GET / HEAD → 405 problem+json with Allow: POST.
+export function loader({ request }: Route.LoaderArgs) {
+  return calcMethodNotAllowed(request);
+}

@@ -1,0 +1,35 @@
+import { expect, type Page } from "@playwright/test";
+
+export const DEMO_PASSWORD = "duty-demo-2026";
+
+export const uniqueEmail = (prefix: string) => `${prefix}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.test`;
+
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.goto("/signin");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByRole("button", { name: "Sign out" })).toBeVisible();
+}
+
+export async function signOut(page: Page) {
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/signin/);
+}
+
+/** Opens the newest message to `to` in the development mailbox and returns the first link containing `path`. */
+export async function linkFromMailbox(page: Page, to: string, path: string): Promise<string> {
+  let href: string | null = null;
+  for (let i = 0; i < 30 && !href; i++) {
+    await page.goto(`/dev/mailbox?to=${encodeURIComponent(to)}`);
+    const first = page.locator("details").first();
+    if ((await first.count()) > 0) {
+      await first.locator("summary").click();
+      const link = first.locator(`a[href*="${path}"]`).first();
+      if ((await link.count()) > 0) href = await link.getAttribute("href");
+    }
+    if (!href) await page.waitForTimeout(300);
+  }
+  if (!href) throw new Error(`no ${path} link in the mailbox of ${to}`);
+  return href;
+}
