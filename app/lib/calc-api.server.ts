@@ -438,20 +438,17 @@ export function calcOperatingPoint(body: unknown): CalcOutcome<OperatingPointRes
     });
     const sys = prepare(i.system, fluid);
     const r = solveOperatingPoint(curve, systemHeadFunction(sys));
-    const res: OperatingPointResponse = {
+    const eff = r.flow === null ? null : efficiencyAt(curve, r.flow);
+    return {
       status: STATUS_MAP[r.status],
       flow_m3s: r.flow,
       head_m: r.head,
+      ...(eff !== null && Number.isFinite(eff) ? { efficiency: eff } : {}),
       message: r.message,
       intersections: r.points.map((x) => ({ flow_m3s: x.flow, head_m: x.head })),
       fluid: out,
       warnings: warningsOut([...r.warnings, ...sys.warnings], { segments: "system.segments", points: "pump.points", fluid: "system." }),
-    };
-    if (r.flow !== null) {
-      const eff = efficiencyAt(curve, r.flow);
-      if (eff !== null && Number.isFinite(eff)) res.efficiency = eff;
-    }
-    return res;
+    } satisfies OperatingPointResponse;
   }, ctx);
 }
 

@@ -4,11 +4,14 @@
 // Stripe webhook, which is verified by its signature instead.
 const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
 const EXEMPT_PATHS = ["/api/stripe/webhook"];
+// The public calculators (/api/v1/calc/<name>) read no cookies and change nothing: anonymous
+// callers are rate-limited per address, token callers send Authorization. No Origin needed.
+const EXEMPT_PATTERNS = [/^\/api\/v1\/calc\/[a-z-]+\/?$/];
 
 export function csrfRefusal(request: Request): string | null {
   if (SAFE.has(request.method.toUpperCase())) return null;
   const url = new URL(request.url);
-  if (EXEMPT_PATHS.includes(url.pathname)) return null;
+  if (EXEMPT_PATHS.includes(url.pathname) || EXEMPT_PATTERNS.some((re) => re.test(url.pathname))) return null;
   const authz = request.headers.get("authorization") ?? "";
   if (/^bearer\s+/i.test(authz)) return null;
   const allowed = new Set([url.origin]);

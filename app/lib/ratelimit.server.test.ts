@@ -1,7 +1,7 @@
 // Fixed-window counter against the real MariaDB (npm test's own database). Check values are
 // our own product rule (fixed windows aligned to the epoch, every hit counted) — common practice.
 import { afterAll, describe, expect, test } from "vitest";
-import { and, eq, like } from "drizzle-orm";
+import { eq, like } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { rateLimits } from "@db/schema";
 import { hitRateLimit, pruneRateLimits, windowStartOf } from "./ratelimit.server";
@@ -60,8 +60,8 @@ describe("hitRateLimit", () => {
     const old = new Date(T0.getTime() - 3 * 3600_000);
     await hitRateLimit(b, RULE, old);
     await hitRateLimit(b, RULE, T0);
-    await pruneRateLimits(new Date(T0.getTime() - 3600_000));
-    const rows = await db().select().from(rateLimits).where(and(eq(rateLimits.bucket, b)));
+    await pruneRateLimits(new Date(T0.getTime() - 3600_000), PREFIX);
+    const rows = await db().select().from(rateLimits).where(eq(rateLimits.bucket, b));
     expect(rows).toHaveLength(1);
     expect(rows[0].windowStart.toISOString()).toBe("2026-12-01T10:30:00.000Z");
   });

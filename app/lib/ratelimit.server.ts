@@ -4,7 +4,7 @@
 // the new count back in the same OK packet (insertId), so concurrent callers each see their own
 // count (1, 2, 3, …) with no read-after-write race. A new row (first hit of a window) reports
 // insertId 0 — the table has no AUTO_INCREMENT column — which means hits = 1.
-import { lt, sql } from "drizzle-orm";
+import { and, like, lt, sql } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { rateLimits } from "@db/schema";
 
@@ -71,8 +71,13 @@ export async function hitRateLimit(bucket: string, rule: RateLimitRule, now: Dat
   };
 }
 
-/** Deletes windows that started before `before`. Returns the number of rows removed. */
-export async function pruneRateLimits(before: Date): Promise<number> {
-  const [res] = (await db().delete(rateLimits).where(lt(rateLimits.windowStart, before))) as unknown as [{ affectedRows: number }];
+/**
+ * Deletes windows that started before `before` (only buckets starting with `bucketPrefix` when
+ * given). Returns the number of rows removed.
+ */
+export async function pruneRateLimits(before: Date, bucketPrefix?: string): Promise<number> {
+  const old = lt(rateLimits.windowStart, before);
+  const where = bucketPrefix ? and(old, like(rateLimits.bucket, `${bucketPrefix.replace(/[\\%_]/g, "\\$&")}%`)) : old;
+  const [res] = (await db().delete(rateLimits).where(where)) as unknown as [{ affectedRows: number }];
   return Number(res?.affectedRows ?? 0);
 }
