@@ -5,7 +5,12 @@ import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
 import { hash } from "@node-rs/argon2";
 import { closeDb, db, withTransaction } from "./client.server";
-import { memberships, users, workspaces, type Role } from "./schema";
+import { libraries, memberships, users, workspaces, type Role } from "./schema";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../app/lib/libraries.server";
+import { addCandidate, createProject, createSystem, listProjects, searchForSystem, selectCandidate } from "../app/lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../app/lib/hydraulics";
+import { innerDiameter, material as materialOf } from "../app/engine";
+import { demoLibraries } from "../fixtures/demo";
 
 export const DEMO_PASSWORD = "duty-demo-2026";
 
@@ -13,6 +18,8 @@ export const DEMO_WORKSPACES = [
   { name: "Kestrel Building Services", slug: "kestrel", plan: "free" as const },
   { name: "Harrow & Vell Pumps", slug: "harrow-vell", plan: "network" as const },
   { name: "Lowmoor Commissioning", slug: "lowmoor", plan: "free" as const },
+  { name: "Nordquay Hydraulics", slug: "nordquay", plan: "network" as const },
+  { name: "Tallowmere Fluid Systems", slug: "tallowmere", plan: "network" as const },
 ];
 
 export const DEMO_USERS: { email: string; name: string; workspace: string; role: Role }[] = [
@@ -59,10 +66,121 @@ export async function seed(): Promise<{ created: number }> {
   return { created };
 }
 
+const viewerFor = async (slug: string, role: Role, userId = "seed"): Promise<Viewer> => {
+  const [w] = await db().select().from(workspaces).where(eq(workspaces.slug, slug));
+  return { userId, workspace: { id: w.id, name: w.name, slug: w.slug, plan: w.plan }, role };
+};
+
+/** Demo libraries: each distributor's clean file, shared; a copy of one kept by the engineering firm for itself. */
+export async function seedLibraries(): Promise<number> {
+  const plans = [
+    { slug: "harrow-vell", from: "Harrow & Vell Pumps", visibility: "shared" as const },
+    { slug: "nordquay", from: "Nordquay Hydraulics", visibility: "shared" as const },
+    { slug: "tallowmere", from: "Tallowmere Fluid Systems", visibility: "shared" as const },
+    { slug: "kestrel", from: "Tallowmere Fluid Systems", visibility: "workspace" as const, name: "Kestrel preferred pumps", description: "Tallowmere range the firm specifies most, kept as its own copy" },
+  ];
+  let made = 0;
+  const libs = demoLibraries();
+  for (const p of plans) {
+    const demo = libs.find((l) => l.distributor === p.from);
+    if (!demo) continue;
+    const name = p.name ?? demo.library;
+    const v = await viewerFor(p.slug, "admin", (await db().select({ id: users.id }).from(users).limit(1))[0]?.id ?? "seed");
+    const existing = await db().select().from(libraries).where(eq(libraries.workspaceId, v.workspace.id));
+    if (existing.some((l) => l.name === name)) continue;
+    const id = await createLibrary(v, { name, description: p.description ?? demo.description });
+    const clean = demo.files.find((f) => !f.variantOf)!;
+    const uploadId = await storeUpload(v, id, new File([clean.text], clean.name, { type: "text/csv" }));
+    const { text, lib } = await getUpload(v, id, uploadId);
+    await importUpload(v, id, uploadId, analyseStored(text, lib).mapping, "demo data");
+    await updateLibrary(v, id, { name, description: p.description ?? demo.description, visibility: p.visibility });
+    made++;
+  }
+  return made;
+}
+
+const M3H = 1 / 3600;
+
+/** The engineering firm's demo projects: systems from pipe runs, three candidates each, one selection each. */
+export async function seedProjects(): Promise<number> {
+  const [eng] = await db().select().from(users).where(eq(users.email, "engineer@kestrel.example"));
+  const v = await viewerFor("kestrel", "engineer", eng.id);
+  const have = await listProjects(v);
+  const steel = materialOf("steel");
+  const ductile = materialOf("ductile-iron-lined");
+  const demos: { project: { name: string; site: string; description: string }; system: string; input: SystemInput }[] = [
+    {
+      project: { name: "Harbourside Offices — chilled water", site: "Harbourside Offices, Quay Street (invented)", description: "Secondary chilled-water loop serving floors 1–8." },
+      system: "CHW secondary loop",
+      input: {
+        ...defaultSystemInput(),
+        temperatureC: 7,
+        mode: "closed-loop",
+        staticLow: 0,
+        staticHigh: 0,
+        controlHead: 14,
+        suctionSurfacePressure: 101325 + 150000,
+        suctionStaticHead: 1,
+        runs: [
+          { side: "suction", name: "Header to pump", pipeTable: "steel-sch40", nominal: "6", diameter: innerDiameter("steel-sch40", "6"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 12, fittings: [{ id: "elbow-90-standard", count: 3 }, { id: "butterfly-valve-open", count: 1 }, { id: "tee-run", count: 2 }], extraK: 0 },
+          { side: "discharge", name: "Riser and floor branches (index circuit)", pipeTable: "steel-sch40", nominal: "6", diameter: innerDiameter("steel-sch40", "6"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 180, fittings: [{ id: "elbow-90-standard", count: 16 }, { id: "tee-run", count: 8 }, { id: "butterfly-valve-open", count: 3 }, { id: "swing-check", count: 1 }], extraK: 4 },
+        ],
+        duty: { flow: 100 * M3H, head: 1 },
+        hoursPerYear: 3200,
+        tariffPerKWh: 0.24,
+        npshMargin: 1.2,
+      },
+    },
+    {
+      project: { name: "Copse Hill reservoir booster", site: "Copse Hill service reservoir (invented)", description: "Booster set lifting treated water from the valley tank to the hillside reservoir." },
+      system: "Valley tank to hillside reservoir",
+      input: {
+        ...defaultSystemInput(),
+        temperatureC: 12,
+        mode: "open",
+        staticLow: 26,
+        staticHigh: 30,
+        suctionStaticHead: 2.5,
+        runs: [
+          { side: "suction", name: "Tank outlet", pipeTable: "steel-sch40", nominal: "4", diameter: innerDiameter("steel-sch40", "4"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 6, fittings: [{ id: "entrance-sharp", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "elbow-90-standard", count: 1 }], extraK: 0 },
+          { side: "discharge", name: "Rising main", pipeTable: "", nominal: "", diameter: 0.104, material: "ductile-iron-lined", roughness: ductile.roughnessNew, agedRoughness: ductile.roughnessAged, length: 420, fittings: [{ id: "elbow-90-long-radius", count: 6 }, { id: "swing-check", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "exit", count: 1 }], extraK: 0 },
+        ],
+        duty: { flow: 40 * M3H, head: 1 },
+        hoursPerYear: 5000,
+        tariffPerKWh: 0.19,
+        npshMargin: 1.3,
+      },
+    },
+  ];
+  let made = 0;
+  for (const d of demos) {
+    if (have.some((p) => p.name === d.project.name)) continue;
+    // The duty head is the design system curve at the duty flow (nominal level, new pipe), rounded up.
+    const ev = evaluateSystem(d.input, { flowMax: d.input.duty!.flow, points: 2 });
+    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.design[1] * 2) / 2 } };
+    const projectId = await createProject(v, d.project);
+    const systemId = await createSystem(v, projectId, d.system, input);
+    const found = await searchForSystem(v, systemId);
+    const picks = found.results.filter((r, i, all) => all.findIndex((x) => x.curveSetId === r.curveSetId) === i).slice(0, 3);
+    const ids: number[] = [];
+    for (const r of picks) {
+      const added = await addCandidate(v, systemId, r.curveSetId, { ...DEFAULT_ADJUSTMENT, method: r.method === "direct" ? "none" : r.method });
+      if (added.ok) ids.push(added.id);
+    }
+    if (ids[0]) await selectCandidate(v, ids[0], "", "Demo selection: best-ranked candidate, adjusted to the duty.");
+    made++;
+  }
+  return made;
+}
+
 if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
   seed()
     .then(async ({ created }) => {
-      process.stderr.write(`[db] demo data: ${created ? `${created} rows created` : "already present"}\n`);
+      const libs = await seedLibraries();
+      const projects = await seedProjects();
+      process.stderr.write(
+        `[db] demo data: ${created || libs || projects ? `${created} accounts rows, ${libs} libraries, ${projects} projects created` : "already present"}\n`,
+      );
       await closeDb();
     })
     .catch(async (err) => {

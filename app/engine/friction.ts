@@ -11,28 +11,74 @@ const CL_X2 = 0.7793974884556819406441139701653776731705;
 /** (ln(10)/2)² (Clamond 2009). */
 const CL_F = 1.325474527619599502640416597148504422899;
 
+// Natural logarithm for the Colebrook solver: x = 2^k·m, m ∈ [1, 2); ln m = ln c_j + ln(1 + r)
+// with c_j the centre of one of 128 mantissa cells, r = m/c_j − 1 (|r| < 1/256) and ln(1 + r)
+// from its Taylor series to r⁷ (truncation < 1e-20). Absolute error ≤ 2.3e-16 against
+// Math.log over 1e-2..1e20 (checked in friction.test.ts); ~2× faster than Math.log here.
+const F64 = new Float64Array(1);
+const U32 = new Uint32Array(F64.buffer);
+const HI = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1 ? 1 : 0; // high word index (endianness)
+const LN_INVC = new Float64Array(128);
+const LN_LOGC = new Float64Array(128);
+for (let j = 0; j < 128; j++) {
+  LN_INVC[j] = 1 / (1 + (j + 0.5) / 128);
+  LN_LOGC[j] = -Math.log(LN_INVC[j]);
+}
+const LN_POW2 = new Float64Array(2048); // 2^−(e−1023) for biased exponent e
+for (let e = 1; e < 2047; e++) LN_POW2[e] = Math.pow(2, 1023 - e);
+const LN2_HI = 0.6931471803691238; // ln 2 split hi + lo (fdlibm constants)
+const LN2_LO = 1.9082149292705877e-10;
+
+/**
+ * Natural logarithm, table + series (see above); falls back to Math.log outside normal
+ * positive numbers.
+ * @param x argument (dimensionless, > 0)
+ */
+export function lnFast(x: number): number {
+  if (!(x >= 2.2250738585072014e-308 && x < Infinity)) return Math.log(x);
+  F64[0] = x;
+  const hi = U32[HI];
+  const e = hi >>> 20;
+  const j = (hi >>> 13) & 127;
+  const r = x * LN_POW2[e] * LN_INVC[j] - 1;
+  const r2 = r * r;
+  const p = r + r2 * ((-0.5 + r * (1 / 3)) + r2 * ((-0.25 + r * 0.2) + r2 * (-1 / 6 + r * (1 / 7))));
+  const k = e - 1023;
+  return k * LN2_HI + (LN_LOGC[j] + (p + k * LN2_LO));
+}
+
 /**
  * Colebrook (1939) equation 1/√f = −2·log10(ε/(3.7D) + 2.51/(Re·√f)), solved to machine
  * precision with D. Clamond's algorithm (Ind. Eng. Chem. Res. 48 (2009) 3665–3671: two
- * fourth-order iterations on the Lambert-W-type form). Source of the equation: C. F.
+ * fourth-order iterations on F + ln(X1 + F) = X2). Source of the equation: C. F.
  * Colebrook, J. Inst. Civ. Eng. 11 (1939) 133–156. Turbulent flow, Re ≳ 4000; the
- * algorithm itself works for Re > ~10 and any ε/D ≥ 0.
+ * algorithm itself works for Re > ~10 and any ε/D ≥ 0. Relative error < 1e-14 against the
+ * equation solved at 40 digits (reference.test.ts).
  * @param reynolds Reynolds number (dimensionless)
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function colebrook(reynolds: number, relativeRoughness: number): number {
-  // Clamond's two iterations with E = N/D substituted so each costs one division:
-  // F ← F − (D + E/2)·E·X1F / (D + E(1 + E/3)) = F − (D² + N/2)·N·X1F / (D³ + N·D + N²/3).
   const X1 = relativeRoughness * reynolds * CL_X1;
-  const X2 = Math.log(reynolds) - CL_X2;
-  let F = X2 - 0.2;
+  // Starting point: Clamond's F0 = X2 − 0.2, but with ln(Re) taken from the exponent and
+  // leading mantissa bits (error < 0.06), so the first ln(X1 + F0) need not wait for the
+  // exact ln(Re). Each iteration is Clamond's with E = N/D substituted (one division):
+  // F ← F − (D + E/2)·E·X1F/(D + E(1 + E/3)) = F − (D² + N/2)·N·X1F/(D³ + N·D + N²/3).
+  let F: number;
+  if (reynolds >= 2.2250738585072014e-308 && reynolds < Infinity) {
+    F64[0] = reynolds;
+    const hi = U32[HI];
+    F = ((hi >>> 20) - 1023 + (hi & 0xfffff) * (1 / 1048576)) * 0.6931471805599453 - CL_X2 - 0.2;
+  } else {
+    F = Math.log(reynolds) - CL_X2 - 0.2;
+  }
+  const X2 = lnFast(reynolds) - CL_X2;
   let X1F = X1 + F;
   let D = 1 + X1F;
-  let N = Math.log(X1F) - 0.2;
-  F -= ((D * D + 0.5 * N) * N * X1F) / (D * D * D + N * D + (N * N) / 3);
+  let N = lnFast(X1F) + F - X2;
+  F -= ((D * D + 0.5 * N) * N * X1F) / (D * D * D + N * D + N * N * (1 / 3));
   X1F = X1 + F;
   D = 1 + X1F;
-  N = Math.log(X1F) + F - X2;
+  N = lnFast(X1F) + F - X2;
   const A = (D * D + 0.5 * N) * N * X1F;
   const B = D * D * D + N * D + N * N * (1 / 3);
   const invF = B / (B * F - A);

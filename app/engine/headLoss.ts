@@ -172,7 +172,7 @@ export function pipeHeadLoss(input: PipeLossInput): PipeLossResult {
   const area = (Math.PI * D * D) / 4;
   const V = flow / area;
   const Re = (V * D) / nu;
-  if (flow > 0) requireFiniteResult("flow, diameter, kinematicViscosity", { V, Re });
+  if (flow > 0 && !(V < Infinity && Re < Infinity)) requireFiniteResult("flow, diameter, kinematicViscosity", { V, Re });
   if (flow > 0 && !(Re > 0)) throw new EngineInputError("flow", "too small for this diameter and viscosity (Reynolds number underflows)");
   const vh = (V * V) / (2 * G0);
   const minorLoss = K * vh;
@@ -201,6 +201,7 @@ export function pipeHeadLoss(input: PipeLossInput): PipeLossResult {
   const fr = frictionFactorDetailed(Re, eps / D, model.method ?? "colebrook");
   const frictionLoss = fr.frictionFactor * (L / D) * vh;
   const headLoss = frictionLoss + minorLoss;
-  return requireFiniteResult("flow, diameter, length, kinematicViscosity", { velocity: V, reynolds: Re, frictionFactor: fr.frictionFactor,
-    headLoss, frictionLoss, minorLoss, velocityHead: vh, regime: fr.regime, method: fr.method, warnings: fr.warnings });
+  if (!(headLoss < Infinity && vh < Infinity)) requireFiniteResult("flow, diameter, length, kinematicViscosity", { headLoss, vh });
+  return { velocity: V, reynolds: Re, frictionFactor: fr.frictionFactor,
+    headLoss, frictionLoss, minorLoss, velocityHead: vh, regime: fr.regime, method: fr.method, warnings: fr.warnings };
 }

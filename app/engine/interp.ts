@@ -8,9 +8,52 @@
 
 /** A prepared monotone cubic: knots, values and tangents. */
 export interface MonotoneCubic {
-  x: Float64Array;
-  y: Float64Array;
-  m: Float64Array;
+  x: number[];
+  y: number[];
+  m: number[];
+}
+
+/**
+ * Fritsch-Carlson tangents for knots x[off..off+n) with values y[off..off+n), written to
+ * m[off..off+n). Arrays may hold several curves end to end (the search index packs them).
+ * @param x knots (any unit, strictly increasing within the range)
+ * @param y values at the knots (any unit)
+ * @param m output tangents (unit of y per unit of x)
+ * @param off first index of this curve (count, dimensionless)
+ * @param n number of knots (count, dimensionless)
+ */
+export function fritschCarlsonTangents(x: ArrayLike<number>, y: ArrayLike<number>, m: number[] | Float64Array, off: number, n: number): void {
+  if (n < 2) {
+    if (n === 1) m[off] = 0;
+    return;
+  }
+  const last = off + n - 1;
+  // Step 1: initial tangents (three-point average inside, one-sided at the ends).
+  let dPrev = (y[off + 1] - y[off]) / (x[off + 1] - x[off]);
+  m[off] = dPrev;
+  for (let k = off + 1; k < last; k++) {
+    const d = (y[k + 1] - y[k]) / (x[k + 1] - x[k]);
+    m[k] = dPrev * d <= 0 ? 0 : (dPrev + d) / 2;
+    dPrev = d;
+  }
+  m[last] = dPrev;
+  // Steps 2–5: make each interval monotone (α² + β² ≤ 9).
+  for (let k = off; k < last; k++) {
+    const d = (y[k + 1] - y[k]) / (x[k + 1] - x[k]);
+    if (d === 0) {
+      m[k] = 0;
+      m[k + 1] = 0;
+      continue;
+    }
+    const a = m[k] / d;
+    const b = m[k + 1] / d;
+    const s = a * a + b * b;
+    if (s > 9) {
+      const t = 3 / Math.sqrt(s);
+      m[k] = t * a * d;
+      m[k + 1] = t * b * d;
+    }
+  }
 }
 
 /**
@@ -20,32 +63,12 @@ export interface MonotoneCubic {
  */
 export function monotoneCubic(xs: readonly number[], ys: readonly number[]): MonotoneCubic {
   const n = xs.length;
-  const x = Float64Array.from(xs);
-  const y = Float64Array.from(ys);
-  const m = new Float64Array(n);
-  if (n === 1) return { x, y, m };
-  const d = new Float64Array(n - 1);
-  for (let k = 0; k < n - 1; k++) d[k] = (y[k + 1] - y[k]) / (x[k + 1] - x[k]);
-  // Step 1: initial tangents (three-point average inside, one-sided at the ends).
-  m[0] = d[0];
-  m[n - 1] = d[n - 2];
-  for (let k = 1; k < n - 1; k++) m[k] = d[k - 1] * d[k] <= 0 ? 0 : (d[k - 1] + d[k]) / 2;
-  // Steps 2–5: make each interval monotone (α² + β² ≤ 9).
-  for (let k = 0; k < n - 1; k++) {
-    if (d[k] === 0) {
-      m[k] = 0;
-      m[k + 1] = 0;
-      continue;
-    }
-    const a = m[k] / d[k];
-    const b = m[k + 1] / d[k];
-    const s = a * a + b * b;
-    if (s > 9) {
-      const t = 3 / Math.sqrt(s);
-      m[k] = t * a * d[k];
-      m[k + 1] = t * b * d[k];
-    }
-  }
+  // Plain arrays: cheaper to allocate and to keep alive than typed arrays for a few knots.
+  const x = xs.slice();
+  const y = ys.slice();
+  const m: number[] = [];
+  for (let k = 0; k < n; k++) m.push(0.5); // packed double array, values set below
+  fritschCarlsonTangents(x, y, m, 0, n);
   return { x, y, m };
 }
 

@@ -90,6 +90,62 @@ export interface PumpCurve {
   warnings: EngineWarning[];
 }
 
+/**
+ * Validates curve points without copying them (throws {@link EngineInputError} naming the
+ * point and field): finite values; flow ≥ 0 strictly increasing; head ≥ 0, first head > 0,
+ * not rising by more than `riseTol` × first head; efficiency 0–1 (> 0 where flow > 0);
+ * power and NPSHr > 0.
+ * @param pts points (flow m³/s, head m, efficiency fraction, power W, NPSHr m)
+ * @param riseTol allowed rise of head with flow, fraction of the first head (dimensionless)
+ * @returns largest head m, and whether the curve droops
+ */
+export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean } {
+  if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
+  if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
+  for (let i = 0; i < pts.length; i++) {
+    const p = pts[i];
+    if (!p || typeof p !== "object") throw new EngineInputError(`points[${i}]`, "must be a point");
+    // Parameter names are built only on failure (this loop runs for every curve of a library).
+    const flow = p.flow;
+    const head = p.head;
+    if (typeof flow !== "number" || !Number.isFinite(flow)) requireFinite(`points[${i}].flow`, flow);
+    if (typeof head !== "number" || !Number.isFinite(head)) requireFinite(`points[${i}].head`, head);
+    if (flow < 0) throw new EngineInputError(`points[${i}].flow`, `must not be negative (got ${flow})`);
+    if (head < 0) throw new EngineInputError(`points[${i}].head`, `must not be negative (got ${head})`);
+    if (i > 0) {
+      const prev = pts[i - 1].flow;
+      if (flow === prev) throw new EngineInputError(`points[${i}].flow`, `duplicate flow ${flow} (same as points[${i - 1}])`);
+      if (flow < prev) throw new EngineInputError(`points[${i}].flow`, "flows must be strictly increasing");
+    }
+    if (p.efficiency !== undefined && p.efficiency !== null) {
+      const e = p.efficiency;
+      if (typeof e !== "number" || !Number.isFinite(e)) requireFinite(`points[${i}].efficiency`, e);
+      if (e < 0 || e > 1) throw new EngineInputError(`points[${i}].efficiency`, `is a fraction 0–1 (got ${e})`);
+      if (e === 0 && flow > 0) throw new EngineInputError(`points[${i}].efficiency`, "must be above zero where flow is above zero");
+    }
+    if (p.power !== undefined && p.power !== null) {
+      if (!(typeof p.power === "number" && p.power > 0 && p.power < Infinity)) requirePositive(`points[${i}].power`, p.power);
+    }
+    if (p.npshr !== undefined && p.npshr !== null) {
+      if (!(typeof p.npshr === "number" && p.npshr > 0 && p.npshr < Infinity)) requirePositive(`points[${i}].npshr`, p.npshr);
+    }
+  }
+  const h0 = pts[0].head;
+  if (!(h0 > 0)) throw new EngineInputError("points[0].head", "the first point's head must be above zero");
+  let runningMin = h0;
+  let headMax = h0;
+  for (let i = 1; i < pts.length; i++) {
+    const h = pts[i].head;
+    if (h - runningMin > riseTol * h0) {
+      throw new EngineInputError(`points[${i}].head`,
+        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${h} m after ${runningMin} m)`);
+    }
+    runningMin = Math.min(runningMin, h);
+    headMax = Math.max(headMax, h);
+  }
+  return { headMax, drooping: headMax > h0 * (1 + 1e-9) };
+}
+
 function column(points: readonly PumpPoint[], key: "efficiency" | "power" | "npshr"): MonotoneCubic | null {
   const xs: number[] = [], ys: number[] = [];
   for (const p of points) {
@@ -111,44 +167,16 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
   const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? 0.1);
   if (riseTol < 0 || riseTol > 1) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
   const warnings: EngineWarning[] = [];
-  const clean: PumpPoint[] = [];
-  for (let i = 0; i < pts.length; i++) {
-    const p = pts[i];
-    if (!p || typeof p !== "object") throw new EngineInputError(`points[${i}]`, "must be a point");
-    const flow = requireFinite(`points[${i}].flow`, p.flow);
-    const head = requireFinite(`points[${i}].head`, p.head);
-    if (flow < 0) throw new EngineInputError(`points[${i}].flow`, `must not be negative (got ${flow})`);
-    if (head < 0) throw new EngineInputError(`points[${i}].head`, `must not be negative (got ${head})`);
-    if (i > 0) {
-      const prev = clean[i - 1].flow;
-      if (flow === prev) throw new EngineInputError(`points[${i}].flow`, `duplicate flow ${flow} (same as points[${i - 1}])`);
-      if (flow < prev) throw new EngineInputError(`points[${i}].flow`, "flows must be strictly increasing");
-    }
-    const q: PumpPoint = { flow, head };
-    if (p.efficiency !== undefined && p.efficiency !== null) {
-      const e = requireFinite(`points[${i}].efficiency`, p.efficiency);
-      if (e < 0 || e > 1) throw new EngineInputError(`points[${i}].efficiency`, `is a fraction 0–1 (got ${e})`);
-      if (e === 0 && flow > 0) throw new EngineInputError(`points[${i}].efficiency`, "must be above zero where flow is above zero");
-      q.efficiency = e;
-    }
-    if (p.power !== undefined && p.power !== null) q.power = requirePositive(`points[${i}].power`, p.power);
-    if (p.npshr !== undefined && p.npshr !== null) q.npshr = requirePositive(`points[${i}].npshr`, p.npshr);
-    clean.push(q);
-  }
+  const { headMax, drooping } = checkPumpPoints(pts, riseTol);
+  const clean: PumpPoint[] = pts.map((p) => {
+    const q: PumpPoint = { flow: p.flow, head: p.head };
+    if (p.efficiency !== undefined && p.efficiency !== null) q.efficiency = p.efficiency;
+    if (p.power !== undefined && p.power !== null) q.power = p.power;
+    if (p.npshr !== undefined && p.npshr !== null) q.npshr = p.npshr;
+    return q;
+  });
   const h0 = clean[0].head;
-  if (!(h0 > 0)) throw new EngineInputError("points[0].head", "the first point's head must be above zero");
-  let runningMin = h0;
-  let headMax = h0;
-  for (let i = 1; i < clean.length; i++) {
-    const h = clean[i].head;
-    if (h - runningMin > riseTol * h0) {
-      throw new EngineInputError(`points[${i}].head`,
-        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${h} m after ${runningMin} m)`);
-    }
-    runningMin = Math.min(runningMin, h);
-    headMax = Math.max(headMax, h);
-  }
-  const drooping = headMax > h0 * (1 + 1e-9);
+
   if (drooping) warnings.push({ code: "drooping-curve", message: "head rises from shutoff before falling (drooping curve): more than one operating point is possible" });
   const opt = (name: string, v: number | undefined) => (v === undefined || v === null ? null : requirePositive(name, v));
   const powerDensity = requirePositive("powerDensity", input.powerDensity ?? 1000);

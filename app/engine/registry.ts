@@ -130,8 +130,10 @@ export const CORRELATIONS: readonly Correlation[] = [
  * @param id correlation id (unitless id)
  */
 export function findCorrelation(id: string): Correlation | undefined {
-  return CORRELATIONS.find((c) => c.id === id);
+  return BY_ID.get(id);
 }
+
+const BY_ID = new Map<string, Correlation>(CORRELATIONS.map((c) => [c.id, c]));
 
 /** Darcy methods selectable as the turbulent friction model. */
 export const FRICTION_METHODS: readonly FrictionMethod[] = ["colebrook", "swamee-jain", "haaland", "churchill"];

@@ -14,8 +14,8 @@
  *    gets a reason stating its figures and how it compares with the top candidate.
  */
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { evalCubic, type MonotoneCubic } from "./interp.ts";
-import { ensurePumpCurve, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { evalCubic, fritschCarlsonTangents, monotoneCubic, type MonotoneCubic } from "./interp.ts";
+import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
@@ -29,23 +29,101 @@ export interface CurveSet {
   curve: PumpCurve | PumpCurveInput;
 }
 
-interface Entry {
-  id: string;
-  label: string;
-  c: PumpCurve;
-  head: MonotoneCubic;
-  eff: MonotoneCubic | null;
-  flowMin: number;
-  flowMax: number;
-  headMax: number;
-  bepFlow: number | null;
+/** Curves of one column for all sets, packed end to end (knots x, values y, tangents m). */
+interface Packed {
+  /** Set i's knots are [off[i], off[i+1]); an empty range means the set lacks this column. */
+  off: Int32Array;
+  x: Float64Array;
+  y: Float64Array;
+  m: Float64Array;
 }
 
-/** Prepared index (reuse it across searches). */
+/**
+ * Prepared index (reuse it across searches). Curves are packed into a few typed arrays so a
+ * large library costs little memory and garbage collection; the per-set scalars below use −1
+ * for "not given".
+ */
 export interface SearchIndex {
-  entries: Entry[];
+  count: number;
+  ids: string[];
+  labels: string[];
+  /** m³/s */
+  flowMin: Float64Array;
+  /** m³/s */
+  flowMax: Float64Array;
+  /** m */
+  headMax: Float64Array;
+  /** m³/s, −1 without BEP */
+  bepFlow: Float64Array;
+  /** rpm, −1 if not given */
+  speed: Float64Array;
+  /** m, −1 if not given */
+  diameter: Float64Array;
+  /** m, −1 if not given */
+  minDiameter: Float64Array;
+  drooping: Uint8Array;
+  head: Packed;
+  /** Efficiency (given, or derived from power at the power column's points). */
+  eff: Packed;
+  npshr: Packed;
   /** Sets that failed validation, with the reason. */
   rejected: { id: string; reason: string }[];
+}
+
+class PackBuilder {
+  off: number[] = [0];
+  x: number[] = [];
+  y: number[] = [];
+  m: number[] = [];
+  add(c: MonotoneCubic | null) {
+    if (c) for (let k = 0; k < c.x.length; k++) { this.x.push(c.x[k]); this.y.push(c.y[k]); this.m.push(c.m[k]); }
+    this.off.push(this.x.length);
+  }
+  /** Appends knots (x, y) and computes their Fritsch-Carlson tangents in place. */
+  begin(): number { return this.x.length; }
+  push(x: number, y: number) { this.x.push(x); this.y.push(y); this.m.push(0.5); }
+  end(start: number) {
+    const n = this.x.length - start;
+    if (n < 2) { this.x.length = start; this.y.length = start; this.m.length = start; }
+    else fritschCarlsonTangents(this.x, this.y, this.m, start, n);
+    this.off.push(this.x.length);
+  }
+  build(): Packed {
+    return { off: Int32Array.from(this.off), x: Float64Array.from(this.x), y: Float64Array.from(this.y), m: Float64Array.from(this.m) };
+  }
+}
+
+/** Monotone cubic (Fritsch-Carlson, see interp.ts) of set i in a packed column; null outside or absent. */
+function evalPacked(p: Packed, i: number, t: number): number | null {
+  let lo = p.off[i];
+  let hi = p.off[i + 1] - 1;
+  if (hi < lo) return null;
+  const x = p.x;
+  if (!(t >= x[lo] && t <= x[hi])) return null;
+  if (hi === lo) return p.y[lo];
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (x[mid] <= t) lo = mid; else hi = mid;
+  }
+  const h = x[hi] - x[lo];
+  const s = (t - x[lo]) / h;
+  const s2 = s * s, s3 = s2 * s;
+  return (2 * s3 - 3 * s2 + 1) * p.y[lo] + (s3 - 2 * s2 + s) * h * p.m[lo] + (-2 * s3 + 3 * s2) * p.y[hi] + (s3 - s2) * h * p.m[hi];
+}
+
+/** Efficiency cubic from the power column when the curve gives no efficiency (η = ρ·g₀·Q·H/P at its points). */
+function derivedEfficiency(c: PumpCurve): MonotoneCubic | null {
+  if (c.efficiency) return c.efficiency;
+  if (!c.power) return null;
+  const xs: number[] = [], ys: number[] = [];
+  for (let k = 0; k < c.power.x.length; k++) {
+    const q = c.power.x[k];
+    const h = evalCubic(c.head, q);
+    if (h === null) continue;
+    xs.push(q);
+    ys.push((c.powerDensity * G0 * q * h) / c.power.y[k]);
+  }
+  return xs.length >= 2 ? monotoneCubic(xs, ys) : null;
 }
 
 /**
@@ -54,18 +132,75 @@ export interface SearchIndex {
  */
 export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
   if (!Array.isArray(sets)) throw new EngineInputError("sets", "must be an array of curve sets");
-  const entries: Entry[] = [];
+  const ids: string[] = [], labels: string[] = [];
+  const flowMin: number[] = [], flowMax: number[] = [], headMax: number[] = [], bepFlow: number[] = [];
+  const speed: number[] = [], diameter: number[] = [], minDiameter: number[] = [], drooping: number[] = [];
+  const head = new PackBuilder(), eff = new PackBuilder(), npshr = new PackBuilder();
   const rejected: { id: string; reason: string }[] = [];
+  const optional = (name: string, v: number | undefined) => (v === undefined || v === null ? -1 : requirePositive(name, v));
   for (const s of sets) {
+    const curve = s?.curve;
+    if (curve && "head" in curve && (curve as PumpCurve).head && "x" in (curve as PumpCurve).head) {
+      // Already prepared: copy its columns.
+      const c = curve as PumpCurve;
+      ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
+      flowMin.push(c.flowMin); flowMax.push(c.flowMax); headMax.push(c.headMax); bepFlow.push(c.bep ? c.bep.flow : -1);
+      speed.push(c.speed ?? -1); diameter.push(c.impellerDiameter ?? -1); minDiameter.push(c.minDiameter ?? -1);
+      drooping.push(c.drooping ? 1 : 0);
+      head.add(c.head); eff.add(derivedEfficiency(c)); npshr.add(c.npshr);
+      continue;
+    }
+    // Raw input: the same checks as createPumpCurve, packed straight into the index (no
+    // per-curve objects, so a large library loads quickly and costs little memory).
+    let v: { headMax: number; drooping: boolean };
+    let sp = -1, dia = -1, dMin = -1, dMax = -1, rhoP = 1000;
+    const input = curve as PumpCurveInput;
     try {
-      const c = ensurePumpCurve(s.curve);
-      entries.push({ id: String(s.id), label: s.label ?? String(s.id), c, head: c.head, eff: c.efficiency,
-        flowMin: c.flowMin, flowMax: c.flowMax, headMax: c.headMax, bepFlow: c.bep?.flow ?? null });
+      if (!input || typeof input !== "object") throw new EngineInputError("curve", "is required");
+      const tol = input.riseTolerance ?? 0.1;
+      if (!(tol >= 0 && tol <= 1)) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
+      v = checkPumpPoints(input.points, tol);
+      sp = optional("speed", input.speed); dia = optional("impellerDiameter", input.impellerDiameter);
+      dMin = optional("minDiameter", input.minDiameter); dMax = optional("maxDiameter", input.maxDiameter);
+      if (dMin > 0 && dMax > 0 && dMin > dMax) throw new EngineInputError("minDiameter", "must not exceed maxDiameter");
+      rhoP = requirePositive("powerDensity", input.powerDensity ?? 1000);
     } catch (e) {
       rejected.push({ id: String(s?.id), reason: e instanceof Error ? e.message : String(e) });
+      continue;
     }
+    const pts = input.points;
+    ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
+    flowMin.push(pts[0].flow); flowMax.push(pts[pts.length - 1].flow); headMax.push(v.headMax);
+    speed.push(sp); diameter.push(dia); minDiameter.push(dMin); drooping.push(v.drooping ? 1 : 0);
+    let st = head.begin();
+    for (const p of pts) head.push(p.flow, p.head);
+    head.end(st);
+    // Efficiency column, or efficiency derived from power at the power column's points; BEP.
+    let hasEff = 0;
+    for (const p of pts) if (p.efficiency !== undefined && p.efficiency !== null) hasEff++;
+    let best = -1, bestQ = -1;
+    st = eff.begin();
+    for (const p of pts) {
+      const e = hasEff >= 2
+        ? p.efficiency
+        : hasEff < 2 && p.power !== undefined && p.power !== null ? (rhoP * G0 * p.flow * p.head) / p.power : undefined;
+      if (e === undefined || e === null) continue;
+      eff.push(p.flow, e);
+      if (e > 0 && e > best) { best = e; bestQ = p.flow; }
+    }
+    eff.end(st);
+    bepFlow.push(best > 0 && bestQ > 0 ? bestQ : -1);
+    st = npshr.begin();
+    for (const p of pts) if (p.npshr !== undefined && p.npshr !== null) npshr.push(p.flow, p.npshr);
+    npshr.end(st);
   }
-  return { entries, rejected };
+  return {
+    count: ids.length, ids, labels,
+    flowMin: Float64Array.from(flowMin), flowMax: Float64Array.from(flowMax), headMax: Float64Array.from(headMax),
+    bepFlow: Float64Array.from(bepFlow), speed: Float64Array.from(speed), diameter: Float64Array.from(diameter),
+    minDiameter: Float64Array.from(minDiameter), drooping: Uint8Array.from(drooping),
+    head: head.build(), eff: eff.build(), npshr: npshr.build(), rejected,
+  };
 }
 
 /** Search options. Ratios and tolerances are dimensionless fractions. */
@@ -143,6 +278,7 @@ export function searchDuty(
   options: SearchOptions = {},
 ): SearchResult {
   const idx = Array.isArray(index) ? prepareSearchIndex(index as CurveSet[]) : (index as SearchIndex);
+  if (!idx || typeof idx.count !== "number") throw new EngineInputError("index", "must be a prepared index or an array of curve sets");
   if (!duty || typeof duty !== "object") throw new EngineInputError("duty", "is required");
   const qd = requirePositive("duty.flow", duty.flow);
   const hd = requirePositive("duty.head", duty.head);
@@ -168,10 +304,11 @@ export function searchDuty(
   const found: Candidate[] = [];
   let rejectedByEnvelope = 0, evaluated = 0;
 
-  for (const e of idx.entries) {
-    if (qd > e.flowMax * grow || hd > e.headMax * grow * grow) { rejectedByEnvelope++; continue; }
+  const fMin = idx.flowMin, fMax = idx.flowMax, hMax = idx.headMax;
+  for (let e = 0; e < idx.count; e++) {
+    if (qd > fMax[e] * grow || hd > hMax[e] * grow * grow) { rejectedByEnvelope++; continue; }
     evaluated++;
-    const h1 = qd >= e.flowMin && qd <= e.flowMax ? (evalCubic(e.head, qd) as number) : null;
+    const h1 = qd >= fMin[e] && qd <= fMax[e] ? (evalPacked(idx.head, e, qd) as number) : null;
     let method: Candidate["method"] | null = null;
     let ratio = 1;
     let kk = 1;
@@ -179,37 +316,36 @@ export function searchDuty(
       if (m === "direct" && useDirect) {
         if (h1 !== null && h1 >= hd && h1 <= hdHigh) { method = "direct"; break; }
       } else if (m === "trim" && useTrim) {
-        if (h1 !== null && h1 > hd || h1 === null && qd < e.flowMin) {
-          const r = solveScale(e, qd, hd, k, trimMinRatio, 1);
-          if (r !== null && (e.c.minDiameter === null || e.c.impellerDiameter === null || e.c.impellerDiameter * r >= e.c.minDiameter * (1 - 1e-9))) {
+        if ((h1 !== null && h1 > hd) || (h1 === null && qd < fMin[e])) {
+          const r = solveScale(idx, e, qd, hd, k, trimMinRatio, 1);
+          const dia = idx.diameter[e], dMin = idx.minDiameter[e];
+          if (r !== null && (dMin < 0 || dia < 0 || dia * r >= dMin * (1 - 1e-9))) {
             method = "trim"; ratio = r; kk = k; break;
           }
         }
       } else if (m === "speed" && useSpeed) {
-        const r = solveScale(e, qd, hd, 1, sLo, sHi);
+        const r = solveScale(idx, e, qd, hd, 1, sLo, sHi);
         if (r !== null) { method = "speed"; ratio = r; kk = 1; break; }
       }
     }
     if (method === null) continue;
     const qOrig = qd / Math.pow(ratio, kk); // flow on the original curve that maps to the duty flow
     const headAtDuty = method === "direct" ? (h1 as number) : hd;
-    const eff = e.eff ? evalCubic(e.eff, qOrig) : efficiencyFromPower(e.c, qOrig);
-    const bepQ = e.bepFlow === null ? null : e.bepFlow * Math.pow(ratio, kk);
+    const eff = evalPacked(idx.eff, e, qOrig);
+    const bepQ = idx.bepFlow[e] < 0 ? null : idx.bepFlow[e] * Math.pow(ratio, kk);
     const bepRatio = bepQ ? qd / bepQ : null;
     let npshr: number | null = null;
-    if (e.c.npshr) {
-      const n0 = evalCubic(e.c.npshr, qOrig);
-      npshr = n0 === null ? null : method === "speed" ? n0 * ratio * ratio : n0;
-    }
+    const n0 = evalPacked(idx.npshr, e, qOrig);
+    if (n0 !== null) npshr = method === "speed" ? n0 * ratio * ratio : n0;
     const npshMargin = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
     if (npshMargin !== null && npshMargin < 1) continue; // cavitation: cannot meet the duty
     const shaftPower = eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null;
     const warnings: EngineWarning[] = [];
     if (method === "trim") warnings.push({ code: "trim-approximate", message: `trim by the ${law} law is approximate` });
     found.push({
-      id: e.id, label: e.label, method, ratio,
-      diameter: method === "trim" && e.c.impellerDiameter !== null ? e.c.impellerDiameter * ratio : e.c.impellerDiameter,
-      speed: method === "speed" && e.c.speed !== null ? e.c.speed * ratio : e.c.speed,
+      id: idx.ids[e], label: idx.labels[e], method, ratio,
+      diameter: idx.diameter[e] < 0 ? null : method === "trim" ? idx.diameter[e] * ratio : idx.diameter[e],
+      speed: idx.speed[e] < 0 ? null : method === "speed" ? idx.speed[e] * ratio : idx.speed[e],
       headAtDuty, efficiency: eff, bepRatio, inPor: bepRatio === null ? null : bepRatio >= 0.7 && bepRatio <= 1.2,
       npshr, npshMargin, shaftPower, score: 0, rank: 0, reason: "", warnings,
     });
@@ -243,22 +379,16 @@ export function searchDuty(
     if (c.shaftPower !== null) parts.push(`${(c.shaftPower / 1000).toFixed(2)} kW shaft${c.shaftPower <= minPower * (1 + 1e-12) ? " (lowest)" : ""}`);
     c.reason = `#${c.rank} of ${found.length}: ${parts.join("; ")}`;
   });
-  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.entries.length, rejectedByEnvelope, evaluated, matched: found.length } });
-}
-
-function efficiencyFromPower(c: PumpCurve, q: number): number | null {
-  if (!c.power || q <= 0) return null;
-  const p = evalCubic(c.power, q);
-  const h = evalCubic(c.head, q);
-  return p === null || h === null || p <= 0 ? null : (c.powerDensity * G0 * q * h) / p;
+  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched: found.length } });
 }
 
 /** Ratio s in [lo, hi] with s²·H(Qd/s^k) = Hd (largest root if several); null if none. */
-function solveScale(e: Entry, qd: number, hd: number, k: number, lo: number, hi: number): number | null {
-  const sMin = Math.max(lo, k === 1 ? qd / e.flowMax : Math.sqrt(qd / e.flowMax));
-  const sMax = e.flowMin > 0 ? Math.min(hi, k === 1 ? qd / e.flowMin : Math.sqrt(qd / e.flowMin)) : hi;
+function solveScale(idx: SearchIndex, e: number, qd: number, hd: number, k: number, lo: number, hi: number): number | null {
+  const qMax = idx.flowMax[e], qMin = idx.flowMin[e];
+  const sMin = Math.max(lo, k === 1 ? qd / qMax : Math.sqrt(qd / qMax));
+  const sMax = qMin > 0 ? Math.min(hi, k === 1 ? qd / qMin : Math.sqrt(qd / qMin)) : hi;
   if (!(sMin <= sMax)) return null;
-  const f = (s: number) => s * s * (evalCubic(e.head, qd / (k === 1 ? s : s * s)) ?? 0) - hd;
+  const f = (s: number) => s * s * (evalPacked(idx.head, e, qd / (k === 1 ? s : s * s)) ?? 0) - hd;
   const fHi = f(sMax);
   if (fHi === 0) return sMax;
   const fLo = f(sMin);
@@ -267,7 +397,7 @@ function solveScale(e: Entry, qd: number, hd: number, k: number, lo: number, hi:
     const r = brent(f, sMin, sMax, 1e-12);
     return r ? r.x : null;
   }
-  if (fHi < 0 || !e.c.drooping) return null;
+  if (fHi < 0 || !idx.drooping[e]) return null;
   // Drooping curve with both ends above the duty: scan for a bracket.
   let prev = sMax, fp = fHi;
   for (let i = 1; i <= 16; i++) {

@@ -1,6 +1,6 @@
 /** Tier 3 — system curve consistency. */
 import { describe, expect, it } from "vitest";
-import { EngineInputError, fluidAt, G0, pipeHeadLoss, sumK, systemCurve, systemHead, suctionLoss, type SystemSpec } from "./index.ts";
+import { EngineInputError, fluidAt, G0, pipeHeadLoss, sumK, systemCurve, systemHead, systemHeadFunction, suctionLoss, type SystemSpec } from "./index.ts";
 
 const fluid = fluidAt({ kind: "water" }, 20);
 const base: SystemSpec = {
@@ -75,5 +75,23 @@ describe("system curve and band", () => {
     expect(() => systemCurve(base, { flowMax: 0 })).toThrow(EngineInputError);
     expect(() => systemCurve(base, { flowMax: 1, points: 1 })).toThrow(EngineInputError);
     expect(() => systemHead({ ...base, staticHead: { min: 5, max: 2 } }, 0)).toThrow(EngineInputError);
+  });
+});
+
+describe("fast system head function", () => {
+  it("gives the same head as systemHead for every case and model (1e-14 relative)", () => {
+    const cases = [{}, { level: "min" as const, roughness: "aged" as const }, { level: "max" as const }];
+    const hw: SystemSpec = { ...base, lossModel: "hazen-williams",
+      suction: base.suction!.map((r) => ({ ...r, hazenWilliamsC: 130 })), discharge: base.discharge!.map((r) => ({ ...r, hazenWilliamsC: 120, hazenWilliamsCAged: 100 })) };
+    const viscous: SystemSpec = { ...base, fluid: { ...fluid, kinematicViscosity: 2e-4, dynamicViscosity: 0.2 } }; // laminar runs
+    for (const spec of [base, hw, viscous, { ...base, frictionMethod: "haaland" as const }, { ...base, mode: "closed-loop" as const, controlHead: 4 }]) {
+      for (const c of cases) {
+        const fast = systemHeadFunction(spec, c);
+        for (const q of [0, 1e-5, 0.002, 0.01, 0.03]) {
+          const slow = systemHead(spec, q, c).head;
+          expect(Math.abs(fast(q) - slow)).toBeLessThanOrEqual(1e-14 * Math.abs(slow));
+        }
+      }
+    }
   });
 });

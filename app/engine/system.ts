@@ -7,7 +7,9 @@
 import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";
 import { sumK, type FittingUse } from "./fittings.ts";
-import { pipeHeadLoss, type LossModel, type PipeLossResult } from "./headLoss.ts";
+import { LAMINAR_MAX_RE, pipeHeadLoss, type LossModel, type PipeLossResult } from "./headLoss.ts";
+import { churchill, hazenWilliamsHeadLoss } from "./friction.ts";
+import { findCorrelation } from "./registry.ts";
 import type { FrictionMethod } from "./registry.ts";
 import { G0 } from "./units.ts";
 
@@ -228,14 +230,57 @@ export function systemHead(system: SystemSpec | PreparedSystem, flow: number, wh
 }
 
 /**
- * A function H(Q) for the solver (fast path: no per-run detail).
+ * A function H(Q) for the solver: the same arithmetic as {@link systemHead} (identical
+ * results, see system.test.ts) without per-run detail, warnings or allocation.
  * @param system the system (SI)
  * @param which level and pipe condition (unitless)
  * @returns (flow m³/s) → head m
  */
 export function systemHeadFunction(system: SystemSpec | PreparedSystem, which: SystemCase = {}): (flow: number) => number {
   const sys = asPrepared(system);
-  return (flow: number) => systemHead(sys, flow, which).head;
+  const aged = (which.roughness ?? "new") === "aged";
+  const staticHead = sys.mode === "closed-loop" ? 0 : sys.static[which.level ?? "nominal"];
+  const nSuction = sys.suction.length;
+  const nu = sys.fluid.kinematicViscosity;
+  const runs = [...sys.suction, ...sys.discharge];
+  const n = runs.length;
+  const Dn = new Float64Array(n), L = new Float64Array(n), eD = new Float64Array(n), K = new Float64Array(n), C = new Float64Array(n);
+  runs.forEach((r, i) => {
+    Dn[i] = r.diameter; L[i] = r.length; K[i] = r.k;
+    eD[i] = (aged ? r.agedRoughness : r.roughness) / r.diameter;
+    C[i] = aged ? r.cAged : r.c;
+  });
+  const hw = sys.lossModel === "hazen-williams";
+  const corr = findCorrelation(sys.frictionMethod);
+  if (!corr || corr.kind !== "darcy-friction") throw new EngineInputError("frictionMethod", `unknown friction method "${sys.frictionMethod}"`);
+  const fn = corr.fn;
+  const isChurchill = corr.id === "churchill";
+  const twoG = 2 * G0;
+  return (flow: number) => {
+    if (!(flow >= 0)) requireNonNegative("flow", flow);
+    // Same operation order as pipeHeadLoss/systemHead, so results are identical.
+    let sLoss = 0, dLoss = 0;
+    if (flow > 0) {
+      for (let i = 0; i < n; i++) {
+        const d = Dn[i];
+        const V = flow / ((Math.PI * d * d) / 4);
+        const vh = (V * V) / twoG;
+        let loss: number;
+        if (hw) {
+          loss = hazenWilliamsHeadLoss(flow, d, L[i], C[i]) + K[i] * vh;
+        } else {
+          const Re = (V * d) / nu;
+          let f = Re <= LAMINAR_MAX_RE && !isChurchill ? 64 / Re : fn(Re, eD[i]);
+          if (!(f > 0 && f < Infinity)) f = churchill(Re, eD[i]);
+          loss = f * (L[i] / d) * vh + K[i] * vh;
+        }
+        if (i < nSuction) sLoss += loss; else dLoss += loss;
+      }
+    }
+    const h = staticHead + sys.fixedHead + sLoss + dLoss;
+    if (!(h > -Infinity && h < Infinity)) requireFiniteResult("system", h);
+    return h;
+  };
 }
 
 /** A system curve over a flow range, with its band. */

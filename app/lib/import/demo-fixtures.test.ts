@@ -44,7 +44,7 @@ function exactSI(c: DemoCurve) {
 }
 
 /** Asserts that `got` (read from a file printed as `gotPrint`) matches `want` (printed as `wantPrint`, or exact when null). */
-function expectSameCurve(got: CurveSet, want: { impeller: number; points: Record<(typeof FIELDS)[number], number | undefined>[] }, gotPrint: Printed, wantPrint: Printed | null, label: string) {
+function expectSameCurve(got: CurveSet, want: { impeller: number; points: Partial<Record<(typeof FIELDS)[number], number>>[] }, gotPrint: Printed, wantPrint: Printed | null, label: string) {
   const tol = (f: keyof Printed) => half(...gotPrint[f]) + (wantPrint ? half(...wantPrint[f]) : 0);
   expect(near(got.impellerDiameter!, want.impeller, tol("impeller")), `${label} impeller ${got.impellerDiameter} vs ${want.impeller}`).toBe(true);
   expect(got.points.length, `${label} point count`).toBe(want.points.length);
@@ -115,12 +115,16 @@ describe.each(demo.map((d) => [d.distributor, d] as [string, DemoDistributor]))(
       const pts = s.points;
       for (let i = 1; i < pts.length; i++) {
         const [p, q] = [pts[i - 1], pts[i]];
-        expect(q.head < p.head && q.power! > p.power! && q.npshr! > p.npshr!, `${s.key} point ${i}`).toBe(true); // source: brief
+        // source: brief (falling head, rising power and NPSHr); at 2 printed decimals two neighbours of a flat
+        // stretch (near shutoff, at 1450 rpm) may print equal, so head and NPSHr are compared with ≤ / ≥ here
+        // and strictly over the whole curve below
+        expect(q.head <= p.head && q.power! > p.power! && q.npshr! >= p.npshr!, `${s.key} point ${i}`).toBe(true);
         // ρ g Q H / η from the printed Q, H, η; relative rounding bound = sum of relative half-units
         const hydraulic = (RHO * G * q.flow * q.head) / q.efficiency!;
         const rel = half(...SI_PRINT.flow) / q.flow + half(...SI_PRINT.head) / q.head + half(...SI_PRINT.efficiency) / q.efficiency! + half(...SI_PRINT.power) / q.power!;
         expect(Math.abs(hydraulic - q.power!) <= rel * q.power! * 1.01, `${s.key} point ${i}: ${hydraulic} W vs ${q.power} W`).toBe(true);
       }
+      expect(pts.at(-1)!.head < pts[0].head && pts.at(-1)!.npshr! > pts[0].npshr!, s.key).toBe(true); // source: brief
       expect(pts[0].flow).toBe(0); // source: brief (curves start at zero flow)
       const best = pts.reduce((m, p) => (p.efficiency! > m.efficiency! ? p : m));
       expect(best.efficiency! >= 0.6 - 0.0005 && best.efficiency! <= 0.85, `${s.key} BEP η ${best.efficiency}`).toBe(true); // source: brief

@@ -1,0 +1,188 @@
+// Pieces of the system page and the selection report: the chart built from a workbench, the
+// per-run table and the candidate comparison table. All inputs SI; display through ./units.
+import { DutyChart } from "./chart/DutyChart";
+import type { PumpSeries } from "./chart/types";
+import type { WorkbenchView } from "~/lib/workbench-view";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
+
+type Cand = WorkbenchView["candidates"][number];
+
+export function candidateSeries(c: Cand, i: number): PumpSeries | null {
+  const r = c.result;
+  if (!r) return null;
+  const pick = (k: "efficiency" | "power" | "npshr") => {
+    const pts = r.curve.filter((p) => p[k] != null).map((p) => ({ flow: p.flow, y: p[k] as number }));
+    return pts.length >= 2 ? pts : undefined;
+  };
+  return {
+    id: String(c.id),
+    label: `${c.label}${adjustmentText(c)}`,
+    colorIndex: i,
+    head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
+    efficiency: pick("efficiency"),
+    power: pick("power"),
+    npshr: pick("npshr"),
+    adjusted: c.adjustment.method !== "none" || c.adjustment.arrangement !== "single",
+    por: r.por ?? undefined,
+    bep: r.figures?.bepFlow != null && r.figures.bepHead != null ? { flow: r.figures.bepFlow * (c.adjustment.arrangement === "parallel" ? c.adjustment.dutyPumps : 1), head: r.figures.bepHead * (c.adjustment.arrangement === "series" ? c.adjustment.dutyPumps : 1) } : undefined,
+    operating: r.operating
+      ? { flow: r.operating.flow, head: r.operating.head, efficiency: r.figures?.efficiency ?? undefined, power: r.figures?.shaftPower ?? undefined, npshr: r.figures?.npshRequired ?? undefined }
+      : null,
+  };
+}
+
+export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }): string {
+  const a = c.adjustment;
+  const parts: string[] = [];
+  if (a.method === "speed") parts.push(`at ${fmtNum((c.result?.ratio ?? 1) * 100, 1)} % speed${c.result?.speed ? ` (${Math.round(c.result.speed)} rpm)` : ""}`);
+  if (a.method === "trim") parts.push(`trimmed to ${c.result?.diameter ? `Ø${(c.result.diameter * 1000).toFixed(0)} mm` : `${fmtNum((c.result?.ratio ?? 1) * 100, 1)} %`}`);
+  if (a.arrangement !== "single") parts.push(`${a.dutyPumps} in ${a.arrangement}${a.standbyPumps ? ` + ${a.standbyPumps} standby` : ""}`);
+  return parts.length ? ` (${parts.join(", ")})` : "";
+}
+
+export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitSystem; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
+  const ev = view.evaluation;
+  const pumps = view.candidates.map(candidateSeries).filter((x): x is PumpSeries => x != null);
+  return (
+    <DutyChart
+      unitSystem={unitSystem}
+      title={title}
+      description={`System curve with its band (low/high static level × new/aged pipe)${pumps.length ? `, ${pumps.length} candidate pump curve(s) and their operating points` : ""}${duty ? ", and the duty point" : ""}.`}
+      system={ev ? { design: ev.flows.map((q, i) => ({ flow: q, y: ev.design[i] })), low: ev.flows.map((q, i) => ({ flow: q, y: ev.low[i] })), high: ev.flows.map((q, i) => ({ flow: q, y: ev.high[i] })) } : undefined}
+      pumps={pumps}
+      npsha={ev?.npsha}
+      duty={duty}
+      flowMax={view.flowMax}
+      compact={compact}
+    />
+  );
+}
+
+export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem: UnitSystem }) {
+  const ev = view.evaluation;
+  if (!ev) return null;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Pipe runs at the duty flow">
+        <caption className="text-left text-xs text-slate-600">Each run at {fmtFlow(unitSystem, ev.dutyFlow)} (the duty flow), new pipe</caption>
+        <thead className="text-left text-slate-600">
+          <tr>
+            <th className="py-1">Run</th>
+            <th>Velocity</th>
+            <th>Re</th>
+            <th>f (Darcy)</th>
+            <th>Regime</th>
+            <th>Loss</th>
+          </tr>
+        </thead>
+        <tbody>
+          {ev.runs.map((r, i) => (
+            <tr key={i} className="border-t border-slate-100 align-top">
+              <td className="py-1">
+                {r.name} <span className="text-xs text-slate-500">({r.side})</span>
+                {r.warnings.map((w, j) => (
+                  <div key={j} className="text-xs text-duty">
+                    ▲ {w}
+                  </div>
+                ))}
+              </td>
+              <td>{fmtQ(unitSystem, "velocity", r.velocity)}</td>
+              <td>{r.reynolds.toExponential(2)}</td>
+              <td>{r.frictionFactor.toFixed(4)}</td>
+              <td>{r.regime}</td>
+              <td>{fmtHead(unitSystem, r.headLoss)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+const yes = (b: boolean | null | undefined, ok: string, bad: string) => (b == null ? "—" : b ? ok : bad);
+
+/** Side-by-side figures of the candidates at their operating points. */
+export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitSystem; actions?: (c: Cand) => React.ReactNode }) {
+  if (view.candidates.length === 0) return null;
+  const rows: [string, (c: Cand) => React.ReactNode][] = [
+    ["Library", (c) => c.library],
+    ["Adjustment", (c) => adjustmentText(c).replace(/^ \(|\)$/g, "") || "as published"],
+    ["Operating flow", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
+    ["Operating head", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
+    ["Outcome", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result?.status === "ok" ? "meets the system" : <span className="text-duty">{c.result?.message}</span>)],
+    ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
+    ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
+    ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? `${fmtNum(c.result.figures.bepRatio * 100, 0)} % of BEP flow${c.result.figures.inPor === false ? " — outside POR" : ""}` : "—")],
+    ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? `${fmtHead(unitSystem, c.result.figures.npshAvailable)} / ${fmtHead(unitSystem, c.result.figures.npshRequired)}` : "—")],
+    ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{fmtNum(c.result.figures.npshMarginRatio, 2)} ({c.result.figures.npshStatus})</span> : "—")],
+    ["Largest power on curve", (c) => fmtPower(unitSystem, c.result?.figures?.maxPower)],
+    ["Motor", (c) => (c.result?.figures?.motorLimit != null ? `${fmtPower(unitSystem, c.result.figures.motorLimit)} limit · ${yes(c.result.figures.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(c.result.figures.motorLoadAtDuty, 0)} load` : "set a motor rating")],
+    ["Energy per year", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${fmtNum(c.result.figures.annualEnergyKWh, 0)} kWh` : "—")],
+    ["Energy cost per year", (c) => fmtNum(c.result?.figures?.annualCost, 0)],
+  ];
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Candidates compared">
+        <thead>
+          <tr className="text-left">
+            <th className="py-1 pr-2 text-slate-600">Figure</th>
+            {view.candidates.map((c, i) => (
+              <th key={c.id} className="min-w-40 px-2 align-bottom">
+                <span className="mr-1 inline-block rounded bg-slate-800 px-1 text-xs text-white">{i + 1}</span>
+                {c.label}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map(([label, cell]) => (
+            <tr key={label} className="border-t border-slate-100 align-top">
+              <th scope="row" className="py-1 pr-2 text-left font-normal text-slate-600">
+                {label}
+              </th>
+              {view.candidates.map((c) => (
+                <td key={c.id} className="px-2 py-1">
+                  {cell(c)}
+                </td>
+              ))}
+            </tr>
+          ))}
+          {view.candidates.some((c) => c.result?.warnings.length) ? (
+            <tr className="border-t border-slate-100 align-top">
+              <th scope="row" className="py-1 pr-2 text-left font-normal text-slate-600">
+                Notes
+              </th>
+              {view.candidates.map((c) => (
+                <td key={c.id} className="px-2 py-1 text-xs text-duty">
+                  {c.result?.ratioNote ? <div>Ratio {c.result.ratioNote}.</div> : null}
+                  {c.result?.warnings.map((w, j) => (
+                    <div key={j}>▲ {w}</div>
+                  ))}
+                </td>
+              ))}
+            </tr>
+          ) : null}
+          {actions ? (
+            <tr className="no-print border-t border-slate-100 align-top">
+              <td />
+              {view.candidates.map((c) => (
+                <td key={c.id} className="px-2 py-2">
+                  {actions(c)}
+                </td>
+              ))}
+            </tr>
+          ) : null}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+export function SizingCaution() {
+  return (
+    <p className="caution">
+      Figures are for design guidance. Verify against the manufacturer's certified data, local codes and a licensed engineer before
+      sizing pumps, pressures or motors.
+    </p>
+  );
+}

@@ -1,0 +1,421 @@
+// The engineer's system, as stored and edited (SI), and its evaluation through the engine.
+// Pure: the server renders with it and the browser recomputes with it while the engineer types.
+import * as v from "valibot";
+import {
+  combinePumps,
+  createPumpCurve,
+  EngineInputError,
+  fluidAt,
+  material as materialOf,
+  operatingFigures,
+  pipeHeadLoss,
+  prepareSystem,
+  sampleCurve,
+  scaleBySpeed,
+  scaleByTrim,
+  solveOperatingPoint,
+  speedForDuty,
+  suctionLoss,
+  systemCurve,
+  systemHeadFunction,
+  trimForDuty,
+  STANDARD_ATMOSPHERE,
+  type EngineWarning,
+  type Fluid,
+  type PipeRunSpec,
+  type PumpCurve,
+  type PumpPoint,
+  type SystemSpec,
+} from "~/engine";
+
+const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
+const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
+const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be greater than zero.`));
+
+export const FittingUseSchema = v.object({
+  id: v.pipe(v.string(), v.maxLength(60)),
+  count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(500)),
+});
+
+export const PipeRunSchema = v.object({
+  side: v.picklist(["suction", "discharge"]),
+  name: v.pipe(v.string(), v.maxLength(80)),
+  /** Catalogue table and nominal size; empty when the inner diameter is typed. */
+  pipeTable: v.pipe(v.string(), v.maxLength(40)),
+  nominal: v.pipe(v.string(), v.maxLength(20)),
+  /** Inner diameter, m. */
+  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, "Inner diameter above 5 m? Check the unit.")),
+  material: v.pipe(v.string(), v.maxLength(40)),
+  /** Absolute roughness new and aged, m. */
+  roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, "Roughness above 50 mm? Check the unit.")),
+  agedRoughness: v.pipe(nonNeg("Aged roughness"), v.maxValue(0.05, "Aged roughness above 50 mm? Check the unit.")),
+  /** Length, m. */
+  length: v.pipe(nonNeg("Length"), v.maxValue(1e6, "Length above 1000 km? Check the unit.")),
+  fittings: v.pipe(v.array(FittingUseSchema), v.maxLength(40)),
+  /** Extra ΣK (dimensionless): entrance, exit, equipment given as K. */
+  extraK: v.pipe(nonNeg("Extra K"), v.maxValue(1e4)),
+});
+
+export const SystemInputSchema = v.object({
+  fluid: v.variant("kind", [
+    v.object({ kind: v.literal("water") }),
+    v.object({
+      kind: v.literal("custom"),
+      name: v.pipe(v.string(), v.maxLength(60)),
+      density: pos("Density"), // kg/m³
+      dynamicViscosity: pos("Viscosity"), // Pa·s
+      vaporPressure: nonNeg("Vapour pressure"), // Pa
+    }),
+  ]),
+  temperatureC: v.pipe(num("Temperature"), v.minValue(-50, "Temperature below −50 °C?"), v.maxValue(300, "Temperature above 300 °C?")),
+  mode: v.picklist(["open", "closed-loop"]),
+  /** Discharge surface minus suction surface elevation, least and most lift, m. */
+  staticLow: num("Static head (low level)"),
+  staticHigh: num("Static head (high level)"),
+  /** Discharge surface pressure minus suction surface pressure (gauge), Pa. */
+  pressureDifference: num("Pressure difference"),
+  /** Closed loop: head held at the control point, m. */
+  controlHead: nonNeg("Control head"),
+  /** Absolute pressure on the suction surface, Pa (atmospheric for an open tank). */
+  suctionSurfacePressure: pos("Suction surface pressure"),
+  /** Suction liquid surface above the pump centreline, m (negative: suction lift). */
+  suctionStaticHead: num("Suction static head"),
+  runs: v.pipe(v.array(PipeRunSchema), v.maxLength(40, "At most 40 pipe runs.")),
+  duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
+  /** Largest flow drawn, m³/s (0: from the duty). */
+  flowMax: nonNeg("Largest flow"),
+  hoursPerYear: v.pipe(nonNeg("Operating hours"), v.maxValue(8784, "A year has at most 8784 hours.")),
+  tariffPerKWh: nonNeg("Energy tariff"),
+  /** Required NPSH margin ratio NPSHa/NPSHr (dimensionless). */
+  npshMargin: v.pipe(num("NPSH margin"), v.minValue(1, "The NPSH margin ratio is at least 1.")),
+});
+
+export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
+export type PipeRunInput = v.InferOutput<typeof PipeRunSchema>;
+
+export function newRun(side: "suction" | "discharge", name: string): PipeRunInput {
+  const m = materialOf("steel");
+  return {
+    side,
+    name,
+    pipeTable: "",
+    nominal: "",
+    diameter: 0.1,
+    material: "steel",
+    roughness: m.roughnessNew,
+    agedRoughness: m.roughnessAged,
+    length: 10,
+    fittings: [],
+    extraK: 0,
+  };
+}
+
+export function defaultSystemInput(): SystemInput {
+  return {
+    fluid: { kind: "water" },
+    temperatureC: 20,
+    mode: "open",
+    staticLow: 10,
+    staticHigh: 12,
+    pressureDifference: 0,
+    controlHead: 0,
+    suctionSurfacePressure: STANDARD_ATMOSPHERE,
+    suctionStaticHead: 2,
+    runs: [
+      { ...newRun("suction", "Suction line"), length: 5, fittings: [{ id: "entrance-sharp", count: 1 }, { id: "gate-valve-open", count: 1 }] },
+      { ...newRun("discharge", "Rising main"), length: 60, fittings: [{ id: "elbow-90-standard", count: 4 }, { id: "swing-check", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "exit", count: 1 }] },
+    ],
+    duty: { flow: 0.01, head: 15 },
+    flowMax: 0,
+    hoursPerYear: 4000,
+    tariffPerKWh: 0.2,
+    npshMargin: 1.1,
+  };
+}
+
+export function fluidOf(input: SystemInput): Fluid {
+  return input.fluid.kind === "water"
+    ? fluidAt({ kind: "water" }, input.temperatureC)
+    : fluidAt(
+        { kind: "custom", name: input.fluid.name || "Custom fluid", density: input.fluid.density, dynamicViscosity: input.fluid.dynamicViscosity, vaporPressure: input.fluid.vaporPressure },
+        input.temperatureC,
+      );
+}
+
+function runSpec(r: PipeRunInput): PipeRunSpec {
+  return {
+    name: r.name,
+    length: r.length,
+    diameter: r.diameter,
+    roughness: r.roughness,
+    agedRoughness: Math.max(r.agedRoughness, r.roughness),
+    minorK: r.extraK,
+    fittings: r.fittings.filter((f) => f.count > 0),
+    nominal: r.pipeTable.startsWith("steel") ? r.nominal : undefined,
+  };
+}
+
+export function systemSpec(input: SystemInput): SystemSpec {
+  const lo = Math.min(input.staticLow, input.staticHigh);
+  const hi = Math.max(input.staticLow, input.staticHigh);
+  return {
+    fluid: fluidOf(input),
+    suction: input.runs.filter((r) => r.side === "suction").map(runSpec),
+    discharge: input.runs.filter((r) => r.side === "discharge").map(runSpec),
+    mode: input.mode,
+    staticHead: input.mode === "open" ? { min: lo, max: hi, nominal: (lo + hi) / 2 } : 0,
+    pressureDifference: input.mode === "open" ? input.pressureDifference : 0,
+    controlHead: input.mode === "closed-loop" ? input.controlHead : undefined,
+  };
+}
+
+export function flowMaxOf(input: SystemInput, pumpFlowMax = 0): number {
+  if (input.flowMax > 0) return input.flowMax;
+  const fromDuty = input.duty ? input.duty.flow * 1.6 : 0;
+  return Math.max(fromDuty, pumpFlowMax * 1.05, 1e-4);
+}
+
+export type RunReport = {
+  name: string;
+  side: "suction" | "discharge";
+  velocity: number;
+  reynolds: number;
+  frictionFactor: number;
+  regime: string;
+  headLoss: number;
+  warnings: string[];
+};
+
+/** Velocity ranges engineers commonly design for, m/s (common practice, rules of thumb). */
+export const VELOCITY_GUIDE = { suction: { min: 0.6, max: 1.5 }, discharge: { min: 0.9, max: 3.0 } } as const;
+
+export type SystemEvaluation = {
+  flows: number[];
+  design: number[];
+  low: number[];
+  high: number[];
+  pressure: number[];
+  dutyFlow: number;
+  runs: RunReport[];
+  warnings: string[];
+  fluid: { density: number; kinematicViscosity: number; vaporPressure: number };
+  npsha: { flow: number; y: number }[];
+};
+
+const wText = (w: EngineWarning[]) => w.map((x) => x.message);
+
+/** System curve, band, per-run figures at the duty flow, and NPSHa over the flow range. */
+export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; points?: number } = {}): SystemEvaluation {
+  const spec = systemSpec(input);
+  const prepared = prepareSystem(spec);
+  const flowMax = opts.flowMax ?? flowMaxOf(input);
+  const curve = systemCurve(prepared, { flowMax, points: opts.points ?? 41 });
+  const dutyFlow = input.duty?.flow ?? flowMax / 1.6;
+  const fluid = prepared.fluid;
+  const sideIndex = { suction: 0, discharge: 0 };
+  const runs: RunReport[] = input.runs.map((r) => {
+    const preparedRun = prepared[r.side][sideIndex[r.side]++];
+    const res = pipeHeadLoss({
+      flow: dutyFlow,
+      diameter: r.diameter,
+      length: r.length,
+      roughness: r.roughness,
+      minorK: preparedRun?.k ?? r.extraK,
+      kinematicViscosity: fluid.kinematicViscosity,
+    });
+    const guide = VELOCITY_GUIDE[r.side];
+    const warnings = wText(res.warnings);
+    if (res.velocity > guide.max) warnings.push(`Velocity ${res.velocity.toFixed(2)} m/s is above the usual ${guide.max} m/s for a ${r.side} line.`);
+    if (res.velocity < guide.min) warnings.push(`Velocity ${res.velocity.toFixed(2)} m/s is below the usual ${guide.min} m/s for a ${r.side} line.`);
+    return { name: r.name, side: r.side, velocity: res.velocity, reynolds: res.reynolds, frictionFactor: res.frictionFactor, regime: res.regime, headLoss: res.headLoss, warnings };
+  });
+  const npsha = curve.flows.map((q) => {
+    const hf = suctionLoss(prepared, q, "aged").headLoss;
+    return { flow: q, y: (input.suctionSurfacePressure - fluid.vaporPressure) / (fluid.density * 9.80665) + input.suctionStaticHead - hf };
+  });
+  return {
+    flows: curve.flows,
+    design: curve.head,
+    low: curve.band.low,
+    high: curve.band.high,
+    pressure: curve.pressure,
+    dutyFlow,
+    runs,
+    warnings: [...wText(prepared.warnings), ...wText(curve.warnings)],
+    fluid: { density: fluid.density, kinematicViscosity: fluid.kinematicViscosity, vaporPressure: fluid.vaporPressure },
+    npsha,
+  };
+}
+
+// ── Candidates ───────────────────────────────────────────────────────────────────────────────
+export const AdjustmentSchema = v.object({
+  method: v.picklist(["none", "speed", "trim"]),
+  /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁; null: solve it to hit the duty. */
+  ratio: v.nullable(v.pipe(v.number(), v.finite(), v.minValue(0.3), v.maxValue(1.2))),
+  arrangement: v.picklist(["single", "parallel", "series"]),
+  dutyPumps: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(8)),
+  standbyPumps: v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(8)),
+  /** Motor rating W (0: not set) and service factor. */
+  motorRating: v.pipe(v.number(), v.finite(), v.minValue(0)),
+  serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1), v.maxValue(1.5)),
+});
+export type Adjustment = v.InferOutput<typeof AdjustmentSchema>;
+export const DEFAULT_ADJUSTMENT: Adjustment = { method: "none", ratio: null, arrangement: "single", dutyPumps: 1, standbyPumps: 0, motorRating: 0, serviceFactor: 1 };
+
+export type CurvePointsIn = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
+
+export type CandidateEvaluation = {
+  status: string;
+  message: string;
+  ratio: number;
+  ratioNote: string | null;
+  speed: number | null;
+  diameter: number | null;
+  curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
+  operating: { flow: number; head: number } | null;
+  allIntersections: { flow: number; head: number }[];
+  figures: {
+    efficiency: number | null;
+    hydraulicPower: number;
+    shaftPower: number | null;
+    bepFlow: number | null;
+    bepHead: number | null;
+    bepRatio: number | null;
+    inPor: boolean | null;
+    npshAvailable: number | null;
+    npshRequired: number | null;
+    npshMarginRatio: number | null;
+    npshStatus: string | null;
+    maxPower: number | null;
+    motorLimit: number | null;
+    nonOverloading: boolean | null;
+    motorLoadAtDuty: number | null;
+    annualEnergyKWh: number | null;
+    annualCost: number | null;
+  } | null;
+  por: { minFlow: number; maxFlow: number } | null;
+  warnings: string[];
+};
+
+function toPumpPoints(points: CurvePointsIn): PumpPoint[] {
+  return points.map((p) => {
+    const o: PumpPoint = { flow: p.flow, head: p.head };
+    if (p.efficiency != null) o.efficiency = p.efficiency;
+    if (p.power != null) o.power = p.power;
+    if (p.npshr != null) o.npshr = p.npshr;
+    return o;
+  });
+}
+
+/** A curve set on the system: adjusted (speed/trim, solved to the duty when asked), combined, solved, with figures. */
+export function evaluateCandidate(
+  input: SystemInput,
+  set: { points: CurvePointsIn; speed: number | null; impellerDiameter: number | null },
+  adj: Adjustment,
+): CandidateEvaluation {
+  const warnings: string[] = [];
+  const base = createPumpCurve({ points: toPumpPoints(set.points), speed: set.speed ?? undefined, impellerDiameter: set.impellerDiameter ?? undefined, riseTolerance: 1 });
+  const spec = systemSpec(input);
+  const prepared = prepareSystem(spec);
+  const sysHead = systemHeadFunction(prepared);
+  let ratio = 1;
+  let ratioNote: string | null = null;
+  let curve: PumpCurve = base;
+  const n = adj.arrangement === "single" ? 1 : adj.dutyPumps;
+  if (adj.method !== "none") {
+    if (adj.ratio != null) ratio = adj.ratio;
+    else if (input.duty) {
+      // Solve on one pump's share of the duty.
+      const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: sysHead(input.duty.flow) } : adj.arrangement === "series" ? { flow: input.duty.flow, head: sysHead(input.duty.flow) / n } : { flow: input.duty.flow, head: sysHead(input.duty.flow) };
+      const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
+      warnings.push(...wText(sol.warnings));
+      if (sol.status === "ok" && sol.ratio) {
+        ratio = sol.ratio;
+        ratioNote = `solved to put the operating point on the duty flow`;
+      } else {
+        ratioNote = `could not be solved: ${sol.message}`;
+      }
+    }
+    const scaled = adj.method === "speed" ? scaleBySpeed(base, ratio) : scaleByTrim(base, ratio);
+    warnings.push(...wText(scaled.warnings));
+    if (adj.method === "trim") warnings.push("Impeller trim figures use the affinity approximation (Q ∝ D, H ∝ D²); confirm with the manufacturer's trimmed curve.");
+    curve = scaled.curve;
+  }
+  let combined = curve;
+  if (adj.arrangement !== "single") {
+    const c = combinePumps(curve, { mode: adj.arrangement, duty: adj.dutyPumps, standby: adj.standbyPumps });
+    warnings.push(...wText(c.warnings));
+    combined = c.curve;
+  }
+  const op = solveOperatingPoint(combined, sysHead);
+  warnings.push(...wText(op.warnings));
+  const sampled = sampleCurve(combined, 41, prepared.fluid.density);
+  const curveOut = sampled.flows.map((q, i) => ({
+    flow: q,
+    head: sampled.head[i],
+    efficiency: sampled.efficiency?.[i] ?? null,
+    power: sampled.power?.[i] ?? null,
+    npshr: sampled.npshr?.[i] ?? null,
+  }));
+  let figures: CandidateEvaluation["figures"] = null;
+  let por: CandidateEvaluation["por"] = null;
+  if (op.flow != null && op.head != null) {
+    const perPumpFlow = adj.arrangement === "parallel" ? op.flow / n : op.flow;
+    const perPumpHead = adj.arrangement === "series" ? op.head / n : op.head;
+    const sl = suctionLoss(prepared, op.flow, "new").headLoss;
+    const f = operatingFigures({
+      curve,
+      flow: perPumpFlow,
+      head: perPumpHead,
+      fluid: prepared.fluid,
+      suction: { surfacePressure: input.suctionSurfacePressure, staticSuctionHead: input.suctionStaticHead, suctionLoss: sl },
+      requiredMargin: input.npshMargin,
+      motor: adj.motorRating > 0 ? { rating: adj.motorRating, serviceFactor: adj.serviceFactor } : undefined,
+      energy: input.hoursPerYear > 0 ? { hoursPerYear: input.hoursPerYear, tariffPerKWh: input.tariffPerKWh } : undefined,
+    });
+    warnings.push(...wText(f.warnings));
+    const k = adj.arrangement === "single" ? 1 : n;
+    figures = {
+      efficiency: f.efficiency,
+      hydraulicPower: f.hydraulicPower * k,
+      shaftPower: f.shaftPower != null ? f.shaftPower * k : null,
+      bepFlow: f.bep?.flow ?? null,
+      bepHead: f.bep?.head ?? null,
+      bepRatio: f.bepRatio,
+      inPor: f.inPor,
+      npshAvailable: f.npsh?.available ?? null,
+      npshRequired: f.npsh?.required ?? null,
+      npshMarginRatio: f.npsh?.marginRatio ?? null,
+      npshStatus: f.npsh?.status ?? null,
+      maxPower: f.maxPower?.power ?? null,
+      motorLimit: f.motor?.limit ?? null,
+      nonOverloading: f.motor?.nonOverloading ?? null,
+      motorLoadAtDuty: f.motor?.loadAtDuty ?? null,
+      annualEnergyKWh: f.energy ? f.energy.annualEnergyKWh * k : null,
+      annualCost: f.energy ? f.energy.annualCost * k : null,
+    };
+    if (f.bep) {
+      const m = adj.arrangement === "parallel" ? n : 1;
+      por = { minFlow: f.bep.flow * 0.7 * m, maxFlow: f.bep.flow * 1.2 * m };
+    }
+  }
+  return {
+    status: op.status,
+    message: op.message,
+    ratio,
+    ratioNote,
+    speed: set.speed != null && adj.method === "speed" ? set.speed * ratio : set.speed,
+    diameter: set.impellerDiameter != null && adj.method === "trim" ? set.impellerDiameter * ratio : set.impellerDiameter,
+    curve: curveOut,
+    operating: op.flow != null && op.head != null ? { flow: op.flow, head: op.head } : null,
+    allIntersections: op.points,
+    figures,
+    por,
+    warnings: [...new Set(warnings)],
+  };
+}
+
+/** Engine input errors become field messages; anything else propagates. */
+export function engineErrorMessage(e: unknown): string | null {
+  return e instanceof EngineInputError ? e.message : null;
+}

@@ -1,0 +1,407 @@
+// Projects, systems, candidates and selections. Every read and write is scoped to the caller's
+// workspace; ids from elsewhere answer 404, never data.
+import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
+import { data } from "react-router";
+import * as v from "valibot";
+import { db, withTransaction } from "@db/client.server";
+import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
+import { prepareSearchIndex, searchDuty, type CurveSet as EngineCurveSet } from "~/engine";
+import {
+  AdjustmentSchema,
+  DEFAULT_ADJUSTMENT,
+  defaultSystemInput,
+  evaluateCandidate,
+  evaluateSystem,
+  flowMaxOf,
+  SystemInputSchema,
+  type Adjustment,
+  type SystemInput,
+} from "./hydraulics";
+import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
+
+export const MAX_CANDIDATES = 6;
+const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
+const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
+
+// ── Projects ────────────────────────────────────────────────────────────────────────────────
+export async function listProjects(viewer: Viewer, opts: { archived?: boolean } = {}) {
+  const rows = await db()
+    .select()
+    .from(projects)
+    .where(and(eq(projects.workspaceId, viewer.workspace.id), opts.archived ? isNotNull(projects.archivedAt) : isNull(projects.archivedAt)))
+    .orderBy(asc(projects.name));
+  const ids = rows.map((p) => p.id);
+  const counts = ids.length
+    ? await db()
+        .select({ projectId: systems.projectId, n: count() })
+        .from(systems)
+        .where(and(inArray(systems.projectId, ids), isNull(systems.archivedAt)))
+        .groupBy(systems.projectId)
+    : [];
+  const sel = ids.length
+    ? await db().select({ projectId: selections.projectId, n: count() }).from(selections).where(inArray(selections.projectId, ids)).groupBy(selections.projectId)
+    : [];
+  return rows.map((p) => ({
+    id: p.id,
+    name: p.name,
+    site: p.site,
+    description: p.description,
+    archived: p.archivedAt != null,
+    systems: Number(counts.find((c) => c.projectId === p.id)?.n ?? 0),
+    selections: Number(sel.find((c) => c.projectId === p.id)?.n ?? 0),
+    createdAt: p.createdAt.toISOString(),
+  }));
+}
+
+export async function getProject(viewer: Viewer, projectId: number) {
+  const [p] = await db()
+    .select()
+    .from(projects)
+    .where(and(eq(projects.id, projectId), eq(projects.workspaceId, viewer.workspace.id)));
+  if (!p) throw notFound("project");
+  return p;
+}
+
+export async function createProject(viewer: Viewer, input: { name: string; site: string; description: string }) {
+  const [{ id }] = await db()
+    .insert(projects)
+    .values({ ...input, workspaceId: viewer.workspace.id, createdBy: viewer.userId })
+    .$returningId();
+  return id;
+}
+
+export async function updateProject(viewer: Viewer, projectId: number, input: { name: string; site: string; description: string }) {
+  const p = await getProject(viewer, projectId);
+  await db().update(projects).set(input).where(eq(projects.id, p.id));
+}
+
+export async function setProjectArchived(viewer: Viewer, projectId: number, archived: boolean) {
+  const p = await getProject(viewer, projectId);
+  await db()
+    .update(projects)
+    .set({ archivedAt: archived ? new Date() : null })
+    .where(eq(projects.id, p.id));
+}
+
+/** Copies a project with its systems and candidates (not its selections), in one transaction. */
+export async function copyProject(viewer: Viewer, projectId: number) {
+  const p = await getProject(viewer, projectId);
+  return withTransaction(async (tx) => {
+    const [{ id }] = await tx
+      .insert(projects)
+      .values({ workspaceId: p.workspaceId, name: `${p.name} (copy)`.slice(0, 160), site: p.site, description: p.description, createdBy: viewer.userId })
+      .$returningId();
+    const sys = await tx.select().from(systems).where(and(eq(systems.projectId, p.id), isNull(systems.archivedAt)));
+    for (const s of sys) {
+      const [{ id: newSys }] = await tx.insert(systems).values({ projectId: id, workspaceId: s.workspaceId, name: s.name, inputJson: s.inputJson }).$returningId();
+      const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
+      if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: newSys, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+    }
+    return id;
+  });
+}
+
+// ── Systems ─────────────────────────────────────────────────────────────────────────────────
+export function parseSystemInput(json: string): SystemInput {
+  const r = v.safeParse(SystemInputSchema, JSON.parse(json));
+  return r.success ? r.output : defaultSystemInput();
+}
+
+export async function listSystems(viewer: Viewer, projectId: number) {
+  const p = await getProject(viewer, projectId);
+  const rows = await db()
+    .select()
+    .from(systems)
+    .where(and(eq(systems.projectId, p.id), isNull(systems.archivedAt)))
+    .orderBy(asc(systems.name));
+  return rows.map((s) => {
+    const input = parseSystemInput(s.inputJson);
+    return { id: s.id, name: s.name, duty: input.duty, mode: input.mode, updatedAt: s.updatedAt.toISOString() };
+  });
+}
+
+export async function getSystem(viewer: Viewer, systemId: number) {
+  const [row] = await db()
+    .select({ s: systems, projectName: projects.name, projectId: projects.id })
+    .from(systems)
+    .innerJoin(projects, eq(projects.id, systems.projectId))
+    .where(and(eq(systems.id, systemId), eq(systems.workspaceId, viewer.workspace.id)));
+  if (!row) throw notFound("system");
+  return { ...row.s, projectName: row.projectName, input: parseSystemInput(row.s.inputJson) };
+}
+
+export async function createSystem(viewer: Viewer, projectId: number, name: string, input: SystemInput = defaultSystemInput()) {
+  const p = await getProject(viewer, projectId);
+  const [{ id }] = await db()
+    .insert(systems)
+    .values({ projectId: p.id, workspaceId: p.workspaceId, name, inputJson: JSON.stringify(input) })
+    .$returningId();
+  return id;
+}
+
+export async function saveSystem(viewer: Viewer, systemId: number, name: string, input: SystemInput) {
+  const s = await getSystem(viewer, systemId);
+  await db().update(systems).set({ name, inputJson: JSON.stringify(v.parse(SystemInputSchema, input)), updatedAt: new Date() }).where(eq(systems.id, s.id));
+}
+
+export async function copySystem(viewer: Viewer, systemId: number) {
+  const s = await getSystem(viewer, systemId);
+  return withTransaction(async (tx) => {
+    const [{ id }] = await tx.insert(systems).values({ projectId: s.projectId, workspaceId: s.workspaceId, name: `${s.name} (copy)`.slice(0, 160), inputJson: s.inputJson }).$returningId();
+    const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
+    if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: id, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+    return id;
+  });
+}
+
+export async function archiveSystem(viewer: Viewer, systemId: number) {
+  const s = await getSystem(viewer, systemId);
+  await db().update(systems).set({ archivedAt: new Date() }).where(eq(systems.id, s.id));
+  return s.projectId;
+}
+
+// ── Candidates ──────────────────────────────────────────────────────────────────────────────
+/** Curve set ids the viewer may use (their revision belongs to a library open to them). */
+async function openCurveSet(viewer: Viewer, curveSetId: number) {
+  const [row] = await db()
+    .select({ set: curveSets, libraryId: libraryRevisions.libraryId, revisionId: libraryRevisions.id })
+    .from(curveSets)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .where(eq(curveSets.id, curveSetId));
+  if (!row) throw data("No such pump curve.", { status: 404 });
+  const { open } = await searchableRevisions(viewer);
+  // A candidate may keep an older revision of an open library: the library must be open, not the revision current.
+  if (!open.some((o) => o.libraryId === row.libraryId)) throw data("No such pump curve in your reach.", { status: 404 });
+  return row;
+}
+
+export type CandidateView = {
+  id: number;
+  curveSetId: number;
+  label: string;
+  model: string;
+  library: string;
+  adjustment: Adjustment;
+  set: LibraryCurveSet;
+};
+
+export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
+  const s = await getSystem(viewer, systemId);
+  const rows = await db()
+    .select({ c: candidates, revisionId: curveSets.revisionId, libraryName: libraries.name })
+    .from(candidates)
+    .innerJoin(curveSets, eq(curveSets.id, candidates.curveSetId))
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
+    .where(eq(candidates.systemId, s.id))
+    .orderBy(asc(candidates.id));
+  if (rows.length === 0) return [];
+  const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
+  return rows
+    .map((r) => {
+      const set = sets.find((x) => x.id === r.c.curveSetId)!;
+      const adj = v.safeParse(AdjustmentSchema, JSON.parse(r.c.adjustmentJson));
+      return {
+        id: r.c.id,
+        curveSetId: r.c.curveSetId,
+        label: `${set.model}${set.speed ? ` · ${Math.round(set.speed)} rpm` : ""}${set.impellerDiameter ? ` · Ø${Math.round(set.impellerDiameter * 1000)} mm` : ""}`,
+        model: set.model,
+        library: r.libraryName,
+        adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
+        set,
+      };
+    })
+    .filter((c) => c.set);
+}
+
+export async function addCandidate(viewer: Viewer, systemId: number, curveSetId: number, adjustment: Adjustment = DEFAULT_ADJUSTMENT) {
+  const s = await getSystem(viewer, systemId);
+  await openCurveSet(viewer, curveSetId);
+  return withTransaction(async (tx) => {
+    await tx.select({ id: systems.id }).from(systems).where(eq(systems.id, s.id)).for("update");
+    const existing = await tx.select({ id: candidates.id, curveSetId: candidates.curveSetId }).from(candidates).where(eq(candidates.systemId, s.id));
+    if (existing.some((c) => c.curveSetId === curveSetId)) return { ok: false as const, reason: "That curve is already a candidate." };
+    if (existing.length >= MAX_CANDIDATES) return { ok: false as const, reason: `At most ${MAX_CANDIDATES} candidates: remove one first.` };
+    const [{ id }] = await tx.insert(candidates).values({ systemId: s.id, curveSetId, adjustmentJson: JSON.stringify(adjustment) }).$returningId();
+    return { ok: true as const, id };
+  });
+}
+
+async function ownCandidate(viewer: Viewer, candidateId: number) {
+  const [row] = await db()
+    .select({ c: candidates })
+    .from(candidates)
+    .innerJoin(systems, eq(systems.id, candidates.systemId))
+    .where(and(eq(candidates.id, candidateId), eq(systems.workspaceId, viewer.workspace.id)));
+  if (!row) throw notFound("candidate");
+  return row.c;
+}
+
+export async function removeCandidate(viewer: Viewer, candidateId: number) {
+  const c = await ownCandidate(viewer, candidateId);
+  const r = await db().delete(candidates).where(eq(candidates.id, c.id));
+  return affected(r) === 1;
+}
+
+export async function adjustCandidate(viewer: Viewer, candidateId: number, adjustment: Adjustment) {
+  const c = await ownCandidate(viewer, candidateId);
+  await db().update(candidates).set({ adjustmentJson: JSON.stringify(v.parse(AdjustmentSchema, adjustment)) }).where(eq(candidates.id, c.id));
+}
+
+/** The system with every candidate evaluated on it (the page's and the report's numbers). */
+export async function systemWorkbench(viewer: Viewer, systemId: number, inputOverride?: SystemInput) {
+  const stored = await getSystem(viewer, systemId);
+  const system = inputOverride ? { ...stored, input: inputOverride } : stored;
+  const cands = await listCandidates(viewer, systemId);
+  const pumpMax = Math.max(0, ...cands.map((c) => c.set.points[c.set.points.length - 1]?.flow ?? 0));
+  const flowMax = flowMaxOf(system.input, pumpMax * (cands.some((c) => c.adjustment.arrangement === "parallel") ? Math.max(...cands.map((c) => c.adjustment.dutyPumps)) : 1));
+  let evaluation: ReturnType<typeof evaluateSystem> | null = null;
+  let systemError: string | null = null;
+  try {
+    evaluation = evaluateSystem(system.input, { flowMax });
+  } catch (e) {
+    systemError = e instanceof Error ? e.message : String(e);
+  }
+  const evaluated = cands.map((c) => {
+    try {
+      return { ...c, result: evaluateCandidate(system.input, c.set, c.adjustment), error: null as string | null };
+    } catch (e) {
+      return { ...c, result: null, error: e instanceof Error ? e.message : String(e) };
+    }
+  });
+  return { system, evaluation, systemError, candidates: evaluated, flowMax };
+}
+
+// ── Duty-point search ───────────────────────────────────────────────────────────────────────
+export type SearchFilters = { type?: string; speed?: number; size?: string; maxPowerW?: number; methods?: ("direct" | "trim" | "speed")[] };
+
+/** Every curve set open to the viewer, ranked against the system's duty (locked libraries listed, never searched). */
+export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
+  const system = await getSystem(viewer, systemId);
+  const { open, locked } = await searchableRevisions(viewer);
+  if (!system.input.duty) return { system, results: [], locked, stats: null, message: "Set a duty point (flow and head) first." };
+  const evaluation = evaluateSystem(system.input);
+  const dutyHead = system.input.duty.head;
+  const sets = open.length ? await curvesOfRevisions(open.map((o) => o.revisionId)) : [];
+  const filtered = sets.filter(
+    (s) =>
+      (!filters.type || s.type.toLowerCase().includes(filters.type.toLowerCase())) &&
+      (!filters.size || s.nominalSize.toLowerCase().includes(filters.size.toLowerCase())) &&
+      (!filters.speed || (s.speed != null && Math.abs(s.speed - filters.speed) / filters.speed < 0.1)),
+  );
+  const engineSets: EngineCurveSet[] = filtered.map((s) => ({
+    id: String(s.id),
+    label: s.model,
+    curve: {
+      points: s.points.map((p) => ({ flow: p.flow, head: p.head, ...(p.efficiency != null ? { efficiency: p.efficiency } : {}), ...(p.power != null ? { power: p.power } : {}), ...(p.npshr != null ? { npshr: p.npshr } : {}) })),
+      speed: s.speed ?? undefined,
+      impellerDiameter: s.impellerDiameter ?? undefined,
+      riseTolerance: 1,
+    },
+  }));
+  const npshaAtDuty = evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - system.input.duty!.flow) < Math.abs(best.flow - system.input.duty!.flow) ? p : best), evaluation.npsha[0]);
+  const res = searchDuty(prepareSearchIndex(engineSets), { flow: system.input.duty.flow, head: dutyHead }, {
+    methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
+    npshAvailable: npshaAtDuty?.y,
+    requiredNpshMargin: system.input.npshMargin,
+    density: evaluation.fluid.density,
+    limit: 50,
+  });
+  const byId = new Map(filtered.map((s) => [String(s.id), s]));
+  const results = res.candidates
+    .filter((c) => !filters.maxPowerW || c.shaftPower == null || c.shaftPower <= filters.maxPowerW)
+    .map((c) => {
+      const s = byId.get(c.id)!;
+      return { ...c, curveSetId: s.id, model: s.model, type: s.type, size: s.nominalSize, setSpeed: s.speed, setDiameter: s.impellerDiameter };
+    });
+  return { system, results, locked, stats: res.stats, message: null as string | null };
+}
+
+// ── Selections ──────────────────────────────────────────────────────────────────────────────
+export const SELECTION_FORMAT = "dutymark-selection/1";
+
+/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
+  const c = await ownCandidate(viewer, candidateId);
+  const bench = await systemWorkbench(viewer, c.systemId);
+  const cand = bench.candidates.find((x) => x.id === c.id);
+  if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
+  const [rev] = await db()
+    .select({ revisionId: curveSets.revisionId, number: libraryRevisions.number, libraryId: libraries.id, libraryName: libraries.name, modelType: pumpModels.type, modelSize: pumpModels.nominalSize })
+    .from(curveSets)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
+    .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
+    .where(eq(curveSets.id, c.curveSetId));
+  const frozen = {
+    format: SELECTION_FORMAT,
+    frozenAt: new Date().toISOString(),
+    project: { id: bench.system.projectId, name: bench.system.projectName },
+    system: { id: bench.system.id, name: bench.system.name, input: bench.system.input },
+    systemCurve: bench.evaluation,
+    pump: {
+      label: cand.label,
+      model: cand.model,
+      type: rev?.modelType ?? "",
+      size: rev?.modelSize ?? "",
+      library: { id: rev?.libraryId, name: rev?.libraryName, revision: rev?.number, revisionId: rev?.revisionId },
+      curveSetId: c.curveSetId,
+      speed: cand.set.speed,
+      impellerDiameter: cand.set.impellerDiameter,
+      points: cand.set.points,
+    },
+    adjustment: cand.adjustment,
+    result: cand.result,
+    flowMax: bench.flowMax,
+  };
+  const [{ id }] = await db()
+    .insert(selections)
+    .values({
+      systemId: bench.system.id,
+      projectId: bench.system.projectId,
+      workspaceId: viewer.workspace.id,
+      curveSetId: c.curveSetId,
+      revisionId: rev?.revisionId ?? null,
+      title: title || cand.label,
+      note,
+      frozenJson: JSON.stringify(frozen),
+      createdBy: viewer.userId,
+    })
+    .$returningId();
+  return id;
+}
+
+export type FrozenSelection = {
+  format: string;
+  frozenAt: string;
+  project: { id: number; name: string };
+  system: { id: number; name: string; input: SystemInput };
+  systemCurve: ReturnType<typeof evaluateSystem> | null;
+  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
+  adjustment: Adjustment;
+  result: ReturnType<typeof evaluateCandidate>;
+  flowMax: number;
+};
+
+export async function getSelection(viewer: Viewer, selectionId: number) {
+  const [s] = await db()
+    .select()
+    .from(selections)
+    .where(and(eq(selections.id, selectionId), eq(selections.workspaceId, viewer.workspace.id)));
+  if (!s) throw notFound("selection");
+  return { ...s, frozen: JSON.parse(s.frozenJson) as FrozenSelection };
+}
+
+export async function listSelections(viewer: Viewer, filter: { projectId?: number; systemId?: number } = {}) {
+  const conds = [eq(selections.workspaceId, viewer.workspace.id)];
+  if (filter.projectId) conds.push(eq(selections.projectId, filter.projectId));
+  if (filter.systemId) conds.push(eq(selections.systemId, filter.systemId));
+  const rows = await db()
+    .select({ id: selections.id, title: selections.title, systemId: selections.systemId, projectId: selections.projectId, createdAt: selections.createdAt, systemName: systems.name, projectName: projects.name })
+    .from(selections)
+    .innerJoin(systems, eq(systems.id, selections.systemId))
+    .innerJoin(projects, eq(projects.id, selections.projectId))
+    .where(and(...conds))
+    .orderBy(desc(selections.id));
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+}

@@ -1,0 +1,213 @@
+// The system editor's form codec: SystemInput (SI) ⇄ form fields in the user's units.
+// Pure, so the server reads the posted form and the browser reads the same form while typing.
+import * as v from "valibot";
+import { fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
+
+export type UnitSystem = "SI" | "US";
+
+/** Fittings offered in the editor (ids of app/engine/fittings.ts). */
+export const EDITOR_FITTINGS = [
+  ["elbow-90-standard", "90° elbows"],
+  ["elbow-90-long-radius", "90° long bends"],
+  ["elbow-45-standard", "45° elbows"],
+  ["tee-run", "Tees (run)"],
+  ["tee-branch", "Tees (branch)"],
+  ["gate-valve-open", "Gate valves"],
+  ["ball-valve-open", "Ball valves"],
+  ["butterfly-valve-open", "Butterfly valves"],
+  ["globe-valve-open", "Globe valves"],
+  ["swing-check", "Swing checks"],
+  ["foot-valve-strainer", "Foot valve + strainer"],
+  ["entrance-sharp", "Entrance (sharp)"],
+  ["exit", "Exit into tank"],
+] as const;
+
+export const unitOf = (sys: UnitSystem, q: Quantity) => UNIT_SYSTEMS[sys][q];
+export const labelOf = (sys: UnitSystem, q: Quantity) => unitLabel(q, unitOf(sys, q));
+
+/** SI → display number, rounded to a sensible number of significant digits for a form field. */
+export function show(sys: UnitSystem, q: Quantity, si: number, digits = 5): string {
+  const x = fromSI(q, unitOf(sys, q), si);
+  if (!Number.isFinite(x)) return "";
+  if (x === 0) return "0";
+  return String(Number(x.toPrecision(digits)));
+}
+
+export type FormErrors = Record<string, string>;
+
+function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { optional?: boolean; label: string }): number | null {
+  const raw = (f.get(key) ?? "").toString().trim().replace(",", ".");
+  if (raw === "") {
+    if (!opts.optional) errors[key] = `Enter ${opts.label}.`;
+    return null;
+  }
+  const n = Number(raw);
+  if (!Number.isFinite(n)) {
+    errors[key] = `${opts.label[0].toUpperCase()}${opts.label.slice(1)} must be a number.`;
+    return null;
+  }
+  return n;
+}
+
+export type FormLike = { get(name: string): FormDataEntryValue | null };
+
+/**
+ * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
+ * ranges. Returns the errors keyed by field name (for messages next to the fields).
+ */
+export function readSystemForm(f: FormLike, sys: UnitSystem): { input: SystemInput | null; name: string; errors: FormErrors } {
+  const errors: FormErrors = {};
+  const si = (q: Quantity, key: string, label: string, optional = false) => {
+    const n = readNumber(f, key, errors, { label, optional });
+    return n == null ? null : toSI(q, unitOf(sys, q), n);
+  };
+  const name = (f.get("name") ?? "").toString().trim().slice(0, 160);
+  if (!name) errors.name = "Give the system a name.";
+  const fluidKind = f.get("fluidKind") === "custom" ? "custom" : "water";
+  const temperatureC = si("temperature", "temperature", "the fluid temperature") ?? 20;
+  const fluid =
+    fluidKind === "custom"
+      ? {
+          kind: "custom" as const,
+          name: (f.get("fluidName") ?? "").toString().slice(0, 60),
+          density: si("density", "density", "the density") ?? 0,
+          dynamicViscosity: si("dynamicViscosity", "viscosity", "the viscosity") ?? 0,
+          vaporPressure: si("pressure", "vaporPressure", "the vapour pressure") ?? 0,
+        }
+      : { kind: "water" as const };
+  const runCount = Math.min(40, Math.max(0, Number(f.get("runCount") ?? 0) | 0));
+  const runs: PipeRunInput[] = [];
+  for (let i = 0; i < runCount; i++) {
+    const p = `run.${i}.`;
+    if (f.get(`${p}remove`) != null) continue;
+    const side = f.get(`${p}side`) === "suction" ? "suction" : "discharge";
+    const pipeTable = (f.get(`${p}table`) ?? "").toString();
+    const nominal = (f.get(`${p}nominal`) ?? "").toString();
+    let diameter: number | null = null;
+    if (pipeTable && nominal) {
+      try {
+        diameter = innerDiameter(pipeTable, nominal);
+      } catch {
+        errors[`${p}nominal`] = "Pick a size from this pipe table.";
+      }
+    } else diameter = si("diameter", `${p}diameter`, "the inner diameter");
+    const mat = (f.get(`${p}material`) ?? "steel").toString();
+    let m: ReturnType<typeof materialOf> | null = null;
+    try {
+      m = materialOf(mat);
+    } catch {
+      errors[`${p}material`] = "Pick a material.";
+    }
+    const roughness = si("roughness", `${p}roughness`, "the roughness", true) ?? m?.roughnessNew ?? 0;
+    const agedRoughness = si("roughness", `${p}agedRoughness`, "the aged roughness", true) ?? m?.roughnessAged ?? roughness;
+    const fittings = EDITOR_FITTINGS.map(([id]) => ({ id, count: Math.max(0, Math.round(Number(f.get(`${p}fit.${id}`) || 0))) })).filter((x) => x.count > 0);
+    runs.push({
+      side,
+      name: (f.get(`${p}name`) ?? "").toString().slice(0, 80) || `${side === "suction" ? "Suction" : "Discharge"} run ${i + 1}`,
+      pipeTable: pipeTable && nominal ? pipeTable : "",
+      nominal: pipeTable && nominal ? nominal : "",
+      diameter: diameter ?? 0,
+      material: mat,
+      roughness,
+      agedRoughness,
+      length: si("length", `${p}length`, "the length") ?? 0,
+      fittings,
+      extraK: readNumber(f, `${p}extraK`, errors, { label: "extra K", optional: true }) ?? 0,
+    });
+  }
+  const add = f.get("addRun");
+  if (add === "suction" || add === "discharge") runs.push(newRun(add, add === "suction" ? "Suction run" : "Discharge run"));
+  const dutyFlow = si("flow", "dutyFlow", "the duty flow", true);
+  const dutyHead = si("head", "dutyHead", "the duty head", true);
+  if ((dutyFlow == null) !== (dutyHead == null)) errors[dutyFlow == null ? "dutyFlow" : "dutyHead"] = "Give both duty flow and head, or neither.";
+  const raw = {
+    fluid,
+    temperatureC,
+    mode: f.get("mode") === "closed-loop" ? "closed-loop" : "open",
+    staticLow: si("head", "staticLow", "the static head at low level") ?? 0,
+    staticHigh: si("head", "staticHigh", "the static head at high level") ?? 0,
+    pressureDifference: si("pressure", "pressureDifference", "the pressure difference", true) ?? 0,
+    controlHead: si("head", "controlHead", "the control head", true) ?? 0,
+    suctionSurfacePressure: si("pressure", "suctionSurfacePressure", "the suction surface pressure") ?? 101325,
+    suctionStaticHead: si("head", "suctionStaticHead", "the suction static head", true) ?? 0,
+    runs,
+    duty: dutyFlow != null && dutyHead != null ? { flow: dutyFlow, head: dutyHead } : null,
+    flowMax: si("flow", "flowMax", "the largest flow", true) ?? 0,
+    hoursPerYear: readNumber(f, "hoursPerYear", errors, { label: "operating hours", optional: true }) ?? 0,
+    tariffPerKWh: readNumber(f, "tariffPerKWh", errors, { label: "the tariff", optional: true }) ?? 0,
+    npshMargin: readNumber(f, "npshMargin", errors, { label: "the NPSH margin ratio", optional: true }) ?? 1.1,
+  };
+  const r = v.safeParse(SystemInputSchema, raw);
+  if (!r.success) {
+    for (const issue of r.issues) {
+      const path = (issue.path ?? []).map((x) => x.key);
+      errors[fieldFor(path)] ??= issue.message;
+    }
+  }
+  return { input: r.success && Object.keys(errors).length === 0 ? r.output : null, name, errors };
+}
+
+/** Maps a schema issue path to the form field that holds it. */
+function fieldFor(path: unknown[]): string {
+  const [a, b, c] = path;
+  if (a === "runs" && typeof b === "number") {
+    const map: Record<string, string> = { diameter: "diameter", roughness: "roughness", agedRoughness: "agedRoughness", length: "length", extraK: "extraK" };
+    return `run.${b}.${map[String(c)] ?? String(c)}`;
+  }
+  if (a === "duty") return b === "head" ? "dutyHead" : "dutyFlow";
+  if (a === "fluid") return b === "dynamicViscosity" ? "viscosity" : String(b);
+  if (a === "temperatureC") return "temperature";
+  return String(a ?? "_form");
+}
+
+/** Field values for the editor in display units (strings, as typed). */
+export function systemFormValues(input: SystemInput, sys: UnitSystem) {
+  return {
+    fluidKind: input.fluid.kind,
+    fluidName: input.fluid.kind === "custom" ? input.fluid.name : "",
+    density: input.fluid.kind === "custom" ? show(sys, "density", input.fluid.density) : "",
+    viscosity: input.fluid.kind === "custom" ? show(sys, "dynamicViscosity", input.fluid.dynamicViscosity) : "",
+    vaporPressure: input.fluid.kind === "custom" ? show(sys, "pressure", input.fluid.vaporPressure) : "",
+    temperature: show(sys, "temperature", input.temperatureC, 4),
+    mode: input.mode,
+    staticLow: show(sys, "head", input.staticLow),
+    staticHigh: show(sys, "head", input.staticHigh),
+    pressureDifference: show(sys, "pressure", input.pressureDifference),
+    controlHead: show(sys, "head", input.controlHead),
+    suctionSurfacePressure: show(sys, "pressure", input.suctionSurfacePressure, 6),
+    suctionStaticHead: show(sys, "head", input.suctionStaticHead),
+    dutyFlow: input.duty ? show(sys, "flow", input.duty.flow) : "",
+    dutyHead: input.duty ? show(sys, "head", input.duty.head) : "",
+    flowMax: input.flowMax > 0 ? show(sys, "flow", input.flowMax) : "",
+    hoursPerYear: String(input.hoursPerYear),
+    tariffPerKWh: String(input.tariffPerKWh),
+    npshMargin: String(input.npshMargin),
+    runs: input.runs.map((r) => {
+      let mat: ReturnType<typeof materialOf> | null = null;
+      try {
+        mat = materialOf(r.material);
+      } catch {}
+      return {
+        side: r.side,
+        name: r.name,
+        table: r.pipeTable,
+        nominal: r.nominal,
+        diameter: r.pipeTable ? "" : show(sys, "diameter", r.diameter),
+        diameterShown: show(sys, "diameter", r.diameter),
+        material: r.material,
+        // Blank when equal to the material's value, so changing the material changes it.
+        roughness: mat && Math.abs(mat.roughnessNew - r.roughness) < 1e-12 ? "" : show(sys, "roughness", r.roughness),
+        agedRoughness: mat && Math.abs(mat.roughnessAged - r.agedRoughness) < 1e-12 ? "" : show(sys, "roughness", r.agedRoughness),
+        roughnessPlaceholder: mat ? show(sys, "roughness", mat.roughnessNew) : "",
+        agedPlaceholder: mat ? show(sys, "roughness", mat.roughnessAged) : "",
+        length: show(sys, "length", r.length),
+        extraK: String(r.extraK),
+        fittings: Object.fromEntries(r.fittings.map((x) => [x.id, x.count])) as Record<string, number>,
+      };
+    }),
+  };
+}
+
+export const PIPE_TABLE_OPTIONS = PIPE_TABLES.map((t) => ({ id: t.id, name: t.name, sizes: t.sizes.map((s) => s.nominal), material: t.material }));
+export const MATERIAL_OPTIONS = MATERIALS.map((m) => ({ id: m.id, name: m.name }));

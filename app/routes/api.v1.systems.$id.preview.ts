@@ -1,0 +1,42 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.systems.$id.preview";
+import { requireApi } from "~/lib/guards.server";
+import { systemWorkbench } from "~/lib/projects.server";
+import { SystemInputSchema } from "~/lib/hydraulics";
+import { badRequest, notFound } from "~/lib/problem.server";
+import { IdField } from "~/lib/forms.server";
+import { workbenchView } from "~/lib/workbench-view";
+
+// POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
+// unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout.
+export async function action({ request, params }: Route.ActionArgs) {
+  const c = await requireApi(request, "project.read");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("System id must be a number.");
+  let body: unknown;
+  try {
+    body = await request.json();
+  } catch {
+    return badRequest("The body must be JSON: { input: {…} }.");
+  }
+  const parsed = v.safeParse(v.object({ input: SystemInputSchema }), body);
+  if (!parsed.success) {
+    return badRequest("The system inputs are not valid.", {
+      errors: parsed.issues.map((i) => ({ field: (i.path ?? []).map((p) => String(p.key)).join("."), message: i.message })),
+    });
+  }
+  try {
+    const bench = await systemWorkbench({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output, parsed.output.input);
+    return Response.json(workbenchView(bench));
+  } catch (e) {
+    if ((e as { init?: { status?: number } })?.init?.status === 404) return notFound();
+    throw e;
+  }
+}
+
+export function loader() {
+  return new Response(JSON.stringify({ type: "about:blank", title: "Method Not Allowed", status: 405, detail: "Use POST." }), {
+    status: 405,
+    headers: { "Content-Type": "application/problem+json", Allow: "POST" },
+  });
+}

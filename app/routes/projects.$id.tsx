@@ -1,0 +1,166 @@
+import * as v from "valibot";
+import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import type { Route } from "./+types/projects.$id";
+import { requireMember } from "~/lib/guards.server";
+import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { can } from "~/lib/permissions";
+import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { Field, FormError, Notice } from "~/components/forms";
+import { fmtFlow, fmtHead } from "~/components/units";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "project.read");
+  const id = v.parse(IdField, params.id);
+  const viewer = viewerOf(m);
+  const p = await getProject(viewer, id);
+  return {
+    project: { id: p.id, name: p.name, site: p.site, description: p.description, archived: p.archivedAt != null },
+    systems: await listSystems(viewer, id),
+    selections: await listSelections(viewer, { projectId: id }),
+    canWrite: can(m.role, "project.write"),
+    unitSystem: m.user.unitSystem,
+  };
+}
+
+const Intent = v.variant("intent", [
+  v.object({ intent: v.literal("new-system"), name: Name("a system name", 160) }),
+  v.object({
+    intent: v.literal("edit"),
+    name: Name("a project name", 160),
+    site: v.pipe(v.string(), v.trim(), v.maxLength(200)),
+    description: v.pipe(v.string(), v.trim(), v.maxLength(2000)),
+  }),
+  v.object({ intent: v.literal("copy") }),
+  v.object({ intent: v.literal("archive") }),
+  v.object({ intent: v.literal("restore") }),
+]);
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, "project.write");
+  const id = v.parse(IdField, params.id);
+  const viewer = viewerOf(m);
+  const r = await readForm(request, Intent);
+  if (!r.ok) return invalid(r.errors);
+  const f = r.value;
+  switch (f.intent) {
+    case "new-system": {
+      const sid = await createSystem(viewer, id, f.name);
+      throw redirect(`/systems/${sid}`);
+    }
+    case "edit":
+      await updateProject(viewer, id, f);
+      return { notice: "Project saved." };
+    case "copy":
+      throw redirect(`/projects/${await copyProject(viewer, id)}`);
+    case "archive":
+    case "restore":
+      await setProjectArchived(viewer, id, f.intent === "archive");
+      return { notice: f.intent === "archive" ? "Project archived." : "Project restored." };
+  }
+}
+
+export default function ProjectPage() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
+  const errors = a?.errors ?? {};
+  return (
+    <div className="space-y-6">
+      <div>
+        <p className="text-sm">
+          <a href="/projects">Projects</a> ›
+        </p>
+        <h1 className="text-2xl font-bold text-brand-900">
+          {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
+        </h1>
+        <p className="text-sm text-slate-600">
+          {d.project.site}
+          {d.project.description ? ` · ${d.project.description}` : ""}
+        </p>
+      </div>
+      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      <FormError error={errors._form} />
+      <section className="panel">
+        <h2 className="text-lg font-semibold">Systems</h2>
+        {d.systems.length === 0 ? (
+          <p className="mt-2 text-sm text-slate-600">No systems yet.</p>
+        ) : (
+          <table className="mt-2 w-full text-sm">
+            <thead className="text-left text-slate-600">
+              <tr>
+                <th className="py-1">System</th>
+                <th>Kind</th>
+                <th>Duty</th>
+              </tr>
+            </thead>
+            <tbody>
+              {d.systems.map((s) => (
+                <tr key={s.id} className="border-t border-slate-100">
+                  <td className="py-1">
+                    <a href={`/systems/${s.id}`} className="font-semibold">
+                      {s.name}
+                    </a>
+                  </td>
+                  <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
+                  <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+        {d.canWrite ? (
+          <Form method="post" className="mt-3 flex flex-wrap items-end gap-3">
+            <input type="hidden" name="intent" value="new-system" />
+            <Field label="New system" name="name" placeholder="e.g. Chilled-water primary loop" error={errors.name} required />
+            <button className="btn">Add system</button>
+          </Form>
+        ) : null}
+      </section>
+      <section className="panel">
+        <h2 className="text-lg font-semibold">Selections</h2>
+        {d.selections.length === 0 ? (
+          <p className="mt-2 text-sm text-slate-600">No pump selected yet.</p>
+        ) : (
+          <ul className="mt-2 space-y-1 text-sm">
+            {d.selections.map((s) => (
+              <li key={s.id}>
+                <a href={`/selections/${s.id}`} className="font-semibold">
+                  {s.title}
+                </a>{" "}
+                for {s.systemName} · {s.createdAt.slice(0, 10)}
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      {d.canWrite ? (
+        <section className="panel space-y-3">
+          <h2 className="text-lg font-semibold">Project details</h2>
+          <Form method="post" className="grid max-w-xl gap-3">
+            <input type="hidden" name="intent" value="edit" />
+            <Field label="Name" name="name" defaultValue={d.project.name} error={errors.name} required />
+            <Field label="Site" name="site" defaultValue={d.project.site} />
+            <Field label="Description" name="description" defaultValue={d.project.description} />
+            <div>
+              <button className="btn">Save</button>
+            </div>
+          </Form>
+          <div className="flex gap-2">
+            <Form method="post">
+              <button className="btn-quiet" name="intent" value="copy">
+                Copy project
+              </button>
+            </Form>
+            <Form method="post">
+              <button className="btn-quiet" name="intent" value={d.project.archived ? "restore" : "archive"}>
+                {d.project.archived ? "Restore" : "Archive"}
+              </button>
+            </Form>
+          </div>
+        </section>
+      ) : null}
+    </div>
+  );
+}

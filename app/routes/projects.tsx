@@ -1,0 +1,92 @@
+import * as v from "valibot";
+import { Form, redirect, useActionData, useLoaderData, useSearchParams } from "react-router";
+import type { Route } from "./+types/projects";
+import { requireMember } from "~/lib/guards.server";
+import { createProject, listProjects } from "~/lib/projects.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { can } from "~/lib/permissions";
+import { invalid, Name, readForm } from "~/lib/forms.server";
+import { Field } from "~/components/forms";
+
+export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const m = await requireMember(request, "project.read");
+  const archived = new URL(request.url).searchParams.get("archived") === "1";
+  return { list: await listProjects(viewerOf(m), { archived }), canWrite: can(m.role, "project.write"), archived, workspace: m.workspace.name };
+}
+
+const Schema = v.object({
+  name: Name("a project name", 160),
+  site: v.pipe(v.string(), v.trim(), v.maxLength(200, "Keep the site under 200 characters.")),
+  description: v.pipe(v.string(), v.trim(), v.maxLength(2000, "Keep the description under 2000 characters.")),
+});
+
+export async function action({ request }: Route.ActionArgs) {
+  const m = await requireMember(request, "project.write");
+  const r = await readForm(request, Schema);
+  if (!r.ok) return invalid(r.errors);
+  const id = await createProject(viewerOf(m), r.value);
+  throw redirect(`/projects/${id}`);
+}
+
+export default function Projects() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>();
+  const errors = (a?.errors ?? {}) as Record<string, string>;
+  const [params] = useSearchParams();
+  void params;
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-2xl font-bold text-brand-900">{d.archived ? "Archived projects" : "Projects"}</h1>
+        <a href={d.archived ? "/projects" : "/projects?archived=1"} className="text-sm">
+          {d.archived ? "Back to active projects" : "Show archived projects"}
+        </a>
+      </div>
+      <section className="panel">
+        {d.list.length === 0 ? (
+          <p className="text-sm text-slate-600">{d.archived ? "No archived projects." : `No projects in ${d.workspace} yet.`}</p>
+        ) : (
+          <table className="w-full text-sm">
+            <thead className="text-left text-slate-600">
+              <tr>
+                <th className="py-1">Project</th>
+                <th>Site</th>
+                <th>Systems</th>
+                <th>Selections</th>
+              </tr>
+            </thead>
+            <tbody>
+              {d.list.map((p) => (
+                <tr key={p.id} className="border-t border-slate-100">
+                  <td className="py-1">
+                    <a href={`/projects/${p.id}`} className="font-semibold">
+                      {p.name}
+                    </a>
+                  </td>
+                  <td>{p.site}</td>
+                  <td>{p.systems}</td>
+                  <td>{p.selections}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+      {d.canWrite && !d.archived ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">New project</h2>
+          <Form method="post" className="mt-2 grid max-w-xl gap-3">
+            <Field label="Name" name="name" error={errors.name} required />
+            <Field label="Site" name="site" error={errors.site} hint="Building, plant or address." />
+            <Field label="Description" name="description" error={errors.description} />
+            <div>
+              <button className="btn">Create project</button>
+            </div>
+          </Form>
+        </section>
+      ) : null}
+    </div>
+  );
+}

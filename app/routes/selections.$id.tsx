@@ -1,0 +1,195 @@
+import * as v from "valibot";
+import { useLoaderData } from "react-router";
+import type { Route } from "./+types/selections.$id";
+import { requireMember } from "~/lib/guards.server";
+import { getSelection } from "~/lib/projects.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { IdField } from "~/lib/forms.server";
+import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
+import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { EDITOR_FITTINGS } from "~/lib/system-form";
+import { PrintButton } from "~/components/PrintButton";
+import type { WorkbenchView } from "~/lib/workbench-view";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "project.read");
+  const id = v.parse(IdField, params.id);
+  const s = await getSelection(viewerOf(m), id);
+  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name };
+}
+
+const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
+
+export default function SelectionReport() {
+  const d = useLoaderData<typeof loader>();
+  const f = d.frozen;
+  const sys = d.unitSystem;
+  const input = f.system.input;
+  const view: WorkbenchView = {
+    evaluation: f.systemCurve,
+    systemError: null,
+    flowMax: f.flowMax,
+    candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null }],
+  };
+  return (
+    <article className="mx-auto max-w-5xl space-y-5 print:max-w-none">
+      <header className="flex flex-wrap items-start justify-between gap-3 border-b border-slate-300 pb-3">
+        <div>
+          <p className="no-print text-sm">
+            <a href={`/projects/${f.project.id}`}>{f.project.name}</a> › <a href={`/systems/${f.system.id}`}>{f.system.name}</a> ›
+          </p>
+          <p className="text-xs uppercase tracking-wide text-slate-500">Pump selection report · {d.workspace}</p>
+          <h1 className="text-2xl font-bold text-brand-900">{d.title}</h1>
+          <p className="text-sm text-slate-700">
+            {f.project.name} · {f.system.name} · selected {d.createdAt.slice(0, 10)} · report no. DM-{String(d.id).padStart(5, "0")}
+          </p>
+        </div>
+        <div className="no-print flex flex-wrap gap-2">
+          <PrintButton />
+          <a className="btn-quiet" href={`/selections/${d.id}/export.csv`}>
+            CSV
+          </a>
+          <a className="btn-quiet" href={`/selections/${d.id}/export.json`}>
+            JSON
+          </a>
+        </div>
+      </header>
+      <SizingCaution />
+      {d.note ? <p className="text-sm">{d.note}</p> : null}
+
+      <section className="grid gap-4 md:grid-cols-2">
+        <div className="panel">
+          <h2 className="font-semibold">Duty and result</h2>
+          <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+            <dt className="text-slate-600">Duty point</dt>
+            <dd>{input.duty ? `${fmtFlow(sys, input.duty.flow)} at ${fmtHead(sys, input.duty.head)}` : "not set"}</dd>
+            <dt className="text-slate-600">Operating point</dt>
+            <dd className="font-semibold">{f.result.operating ? `${fmtFlow(sys, f.result.operating.flow)} at ${fmtHead(sys, f.result.operating.head)}` : f.result.message}</dd>
+            <dt className="text-slate-600">Pump added pressure</dt>
+            <dd>{f.result.operating && f.systemCurve ? fmtPressure(sys, f.result.operating.head * f.systemCurve.fluid.density * 9.80665) : "—"}</dd>
+            <dt className="text-slate-600">Pump</dt>
+            <dd>
+              {f.pump.model}
+              {f.pump.type ? ` · ${f.pump.type}` : ""}
+              {f.pump.size ? ` · ${f.pump.size}` : ""}
+            </dd>
+            <dt className="text-slate-600">Curve data</dt>
+            <dd>
+              {f.pump.library.name} revision {f.pump.library.revision}
+              {f.pump.speed ? ` · ${Math.round(f.pump.speed)} rpm` : ""}
+              {f.pump.impellerDiameter ? ` · Ø${(f.pump.impellerDiameter * 1000).toFixed(0)} mm` : ""}
+            </dd>
+          </dl>
+        </div>
+        <div className="panel">
+          <h2 className="font-semibold">System inputs</h2>
+          <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+            <dt className="text-slate-600">Fluid</dt>
+            <dd>
+              {input.fluid.kind === "water" ? "Water" : input.fluid.name || "Custom liquid"} at {fmtQ(sys, "temperature", input.temperatureC, 1)}
+              {f.systemCurve ? ` · ρ ${fmtNum(f.systemCurve.fluid.density, 1)} kg/m³ · ν ${f.systemCurve.fluid.kinematicViscosity.toExponential(3)} m²/s` : ""}
+            </dd>
+            <dt className="text-slate-600">Kind</dt>
+            <dd>{input.mode === "closed-loop" ? `closed loop, control head ${fmtHead(sys, input.controlHead)}` : "open, static lift"}</dd>
+            {input.mode === "open" ? (
+              <>
+                <dt className="text-slate-600">Static head</dt>
+                <dd>
+                  {fmtHead(sys, input.staticLow)} to {fmtHead(sys, input.staticHigh)}
+                </dd>
+                <dt className="text-slate-600">Pressure difference</dt>
+                <dd>{fmtPressure(sys, input.pressureDifference)}</dd>
+              </>
+            ) : null}
+            <dt className="text-slate-600">Suction surface</dt>
+            <dd>
+              {fmtPressure(sys, input.suctionSurfacePressure)} abs., {fmtHead(sys, input.suctionStaticHead)} above the pump
+            </dd>
+            <dt className="text-slate-600">Operation</dt>
+            <dd>
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} per kWh; NPSH margin wanted {input.npshMargin}
+            </dd>
+          </dl>
+        </div>
+      </section>
+
+      <section className="panel break-inside-avoid">
+        <h2 className="font-semibold">Curves</h2>
+        <WorkbenchChart view={view} unitSystem={sys} duty={input.duty} title={`${f.pump.label} on ${f.system.name}`} />
+      </section>
+
+      <section className="panel break-inside-avoid">
+        <h2 className="font-semibold">Figures at the operating point</h2>
+        <CandidateTable view={view} unitSystem={sys} />
+      </section>
+
+      <section className="panel break-inside-avoid">
+        <h2 className="font-semibold">Pipe runs</h2>
+        <table className="mt-2 w-full text-sm">
+          <thead className="text-left text-slate-600">
+            <tr>
+              <th className="py-1">Run</th>
+              <th>Inner diameter</th>
+              <th>Length</th>
+              <th>Roughness new / aged</th>
+              <th>Fittings and ΣK</th>
+            </tr>
+          </thead>
+          <tbody>
+            {input.runs.map((r, i) => (
+              <tr key={i} className="border-t border-slate-100 align-top">
+                <td className="py-1">
+                  {r.name} ({r.side})
+                </td>
+                <td>
+                  {fmtQ(sys, "diameter", r.diameter)}
+                  {r.pipeTable ? ` (${r.pipeTable} ${r.nominal})` : ""}
+                </td>
+                <td>{fmtQ(sys, "length", r.length)}</td>
+                <td>
+                  {fmtQ(sys, "roughness", r.roughness, 4)} / {fmtQ(sys, "roughness", r.agedRoughness, 4)}
+                </td>
+                <td className="text-xs">
+                  {r.fittings.map((x) => `${x.count} × ${FITTING_NAMES[x.id] ?? x.id}`).join(", ") || "none"}
+                  {r.extraK ? `; extra K ${r.extraK}` : ""}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        <div className="mt-3">
+          <RunTable view={view} unitSystem={sys} />
+        </div>
+      </section>
+
+      <section className="panel break-inside-avoid text-sm">
+        <h2 className="font-semibold">Methods and assumptions</h2>
+        <ul className="mt-2 list-disc space-y-1 pl-5">
+          <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
+          <li>Fittings: K = n·fT after Crane Technical Paper No. 410 (fT for clean commercial steel at full turbulence); entrance 0.5 and exit 1.0 (common practice).</li>
+          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
+          <li>System band: least and most static lift × new and aged pipe roughness.</li>
+          <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
+          <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>
+          <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
+          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {f.frozenAt.slice(0, 16).replace("T", " ")} UTC; later library changes do not alter this report.</li>
+        </ul>
+      </section>
+
+      <section className="panel break-inside-avoid text-sm">
+        <h2 className="font-semibold">Sign-off</h2>
+        <div className="mt-4 grid grid-cols-3 gap-6">
+          {["Prepared by", "Checked by", "Approved by"].map((who) => (
+            <div key={who}>
+              <div className="h-10 border-b border-slate-400" />
+              <p className="mt-1 text-xs text-slate-600">{who} · date</p>
+            </div>
+          ))}
+        </div>
+      </section>
+      <SizingCaution />
+    </article>
+  );
+}

@@ -1,0 +1,203 @@
+import * as v from "valibot";
+import { Form, redirect, useLoaderData } from "react-router";
+import type { Route } from "./+types/systems.$id.search";
+import { requireMember } from "~/lib/guards.server";
+import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { IdField } from "~/lib/forms.server";
+import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
+import { can } from "~/lib/permissions";
+import { toSI } from "~/engine";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
+import { FormError } from "~/components/forms";
+import { AccessBadge, curveLabel } from "~/components/library-bits";
+import { SizingCaution } from "~/components/workbench";
+
+export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "project.read");
+  const id = v.parse(IdField, params.id);
+  const url = new URL(request.url);
+  const sys = m.user.unitSystem as UnitSystem;
+  const q = (k: string) => url.searchParams.get(k)?.trim() || "";
+  const maxPower = Number(q("maxPower").replace(",", "."));
+  const speed = Number(q("speed"));
+  const methods = url.searchParams.getAll("method").filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
+  const filters = {
+    type: q("type").slice(0, 40) || undefined,
+    size: q("size").slice(0, 40) || undefined,
+    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
+    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys === "US" ? "hp" : "kW", maxPower) : undefined,
+    methods: methods.length ? methods : undefined,
+  };
+  const viewer = viewerOf(m);
+  const res = await searchForSystem(viewer, id, filters);
+  const current = await listCandidates(viewer, id);
+  return {
+    id,
+    name: res.system.name,
+    project: { id: res.system.projectId, name: res.system.projectName },
+    duty: res.system.input.duty,
+    unitSystem: sys,
+    message: res.message,
+    stats: res.stats,
+    locked: res.locked.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, visibility: l.visibility })),
+    results: res.results.map((r) => ({
+      curveSetId: r.curveSetId,
+      rank: r.rank,
+      model: r.model,
+      type: r.type,
+      size: r.size,
+      curve: curveLabel(r.setSpeed, r.setDiameter),
+      method: r.method,
+      ratio: r.ratio,
+      efficiency: r.efficiency,
+      bepRatio: r.bepRatio,
+      inPor: r.inPor,
+      npshMargin: r.npshMargin,
+      shaftPower: r.shaftPower,
+      reason: r.reason,
+      already: current.some((c) => c.curveSetId === r.curveSetId),
+    })),
+    candidateCount: current.length,
+    canWrite: can(m.role, "project.write"),
+    filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods },
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, "project.write");
+  const id = v.parse(IdField, params.id);
+  const form = await request.formData();
+  const curveSetId = v.parse(IdField, String(form.get("curveSetId")));
+  const method = form.get("method");
+  const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
+  const r = await addCandidate(viewerOf(m), id, curveSetId, adj);
+  if (!r.ok) return { error: r.reason };
+  throw redirect(`/systems/${id}`);
+}
+
+const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
+
+export default function Search({ actionData }: Route.ComponentProps) {
+  const d = useLoaderData<typeof loader>();
+  const sys = d.unitSystem;
+  return (
+    <div className="space-y-4">
+      <div>
+        <p className="text-sm">
+          <a href="/projects">Projects</a> › <a href={`/projects/${d.project.id}`}>{d.project.name}</a> › <a href={`/systems/${d.id}`}>{d.name}</a> ›
+        </p>
+        <h1 className="text-2xl font-bold text-brand-900">Pumps for {d.duty ? `${fmtFlow(sys, d.duty.flow)} at ${fmtHead(sys, d.duty.head)}` : "this system"}</h1>
+      </div>
+      <FormError error={(actionData as { error?: string } | undefined)?.error} />
+      {d.message ? <p className="caution">{d.message}</p> : null}
+      <Form method="get" className="panel flex flex-wrap items-end gap-3 text-sm">
+        <label>
+          <span className="label">Type contains</span>
+          <input name="type" defaultValue={d.filters.type} className="field w-36" />
+        </label>
+        <label>
+          <span className="label">Size contains</span>
+          <input name="size" defaultValue={d.filters.size} className="field w-28" />
+        </label>
+        <label>
+          <span className="label">Speed (rpm, ±10 %)</span>
+          <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-24" />
+        </label>
+        <label>
+          <span className="label">Max shaft power ({sys === "US" ? "hp" : "kW"})</span>
+          <input name="maxPower" inputMode="decimal" defaultValue={d.filters.maxPower} className="field w-24" />
+        </label>
+        <fieldset>
+          <legend className="label">Ways to meet the duty</legend>
+          {(["direct", "trim", "speed"] as const).map((mth) => (
+            <label key={mth} className="mr-2">
+              <input type="checkbox" name="method" value={mth} defaultChecked={d.filters.methods.length === 0 || d.filters.methods.includes(mth)} /> {METHOD_TEXT[mth]}
+            </label>
+          ))}
+        </fieldset>
+        <button className="btn">Search</button>
+      </Form>
+      {d.stats ? (
+        <p className="text-xs text-slate-600" data-testid="search-stats">
+          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · showing the best {d.results.length}
+        </p>
+      ) : null}
+      <section className="panel overflow-x-auto">
+        {d.results.length === 0 ? (
+          <p className="text-sm text-slate-600">No pump in the libraries open to you meets this duty with these filters.</p>
+        ) : (
+          <table className="w-full text-sm" aria-label="Ranked pumps">
+            <thead className="text-left text-slate-600">
+              <tr>
+                <th className="py-1">#</th>
+                <th>Pump</th>
+                <th>How</th>
+                <th>Efficiency</th>
+                <th>vs BEP</th>
+                <th>NPSH margin</th>
+                <th>Shaft power</th>
+                <th>Why this rank</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {d.results.map((r) => (
+                <tr key={`${r.curveSetId}-${r.method}`} className="border-t border-slate-100 align-top">
+                  <td className="py-1">{r.rank}</td>
+                  <td>
+                    <span className="font-semibold">{r.model}</span> <span className="text-xs text-slate-500">{r.curve}</span>
+                    <div className="text-xs text-slate-500">{[r.type, r.size].filter(Boolean).join(" · ")}</div>
+                  </td>
+                  <td>{r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %`}</td>
+                  <td>{fmtPct(r.efficiency)}</td>
+                  <td>
+                    {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
+                    {r.inPor === false ? <span className="text-duty"> outside POR</span> : null}
+                  </td>
+                  <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
+                  <td>{fmtPower(sys, r.shaftPower)}</td>
+                  <td className="max-w-md text-xs">{r.reason}</td>
+                  <td>
+                    {d.canWrite ? (
+                      r.already ? (
+                        <span className="text-xs text-slate-500">candidate</span>
+                      ) : (
+                        <Form method="post">
+                          <input type="hidden" name="curveSetId" value={r.curveSetId} />
+                          <input type="hidden" name="method" value={r.method} />
+                          <button className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= 6} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
+                            Add
+                          </button>
+                        </Form>
+                      )
+                    ) : null}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+      {d.locked.length ? (
+        <section className="panel">
+          <h2 className="font-semibold">Not searched: shared libraries your plan does not open</h2>
+          <ul className="mt-2 space-y-1 text-sm">
+            {d.locked.map((l) => (
+              <li key={l.id}>
+                <AccessBadge access="locked" visibility={l.visibility} /> {l.name} by {l.owner}
+                {l.description ? <span className="text-slate-500"> — {l.description}</span> : null}
+              </li>
+            ))}
+          </ul>
+          <p className="mt-2 text-sm">
+            <a href="/workspace/billing">See plans</a>
+          </p>
+        </section>
+      ) : null}
+      <SizingCaution />
+    </div>
+  );
+}
