@@ -37,9 +37,15 @@ export const workspaces = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     slug: varchar("slug", { length: 140 }).notNull(),
     plan: mysqlEnum("plan", PLANS).notNull().default("free"),
+    // Billing (Stripe): changed only by verified webhooks (app/lib/billing.server.ts).
+    stripeCustomerId: varchar("stripe_customer_id", { length: 64 }),
+    stripeSubscriptionId: varchar("stripe_subscription_id", { length: 64 }),
+    subscriptionStatus: varchar("subscription_status", { length: 32 }),
+    currentPeriodEnd: datetime("current_period_end", { mode: "date" }),
+    cancelAtPeriodEnd: boolean("cancel_at_period_end").notNull().default(false),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("workspaces_slug_uq").on(t.slug)],
+  (t) => [uniqueIndex("workspaces_slug_uq").on(t.slug), uniqueIndex("workspaces_stripe_customer_uq").on(t.stripeCustomerId)],
 );
 
 
@@ -382,4 +388,76 @@ export const rateLimits = mysqlTable(
     hits: int("hits").notNull().default(0),
   },
   (t) => [primaryKey({ name: "rate_limits_pk", columns: [t.bucket, t.windowStart] })],
+);
+
+// ── Billing ─────────────────────────────────────────────────────────────────────────────────
+/** Every Stripe event handled, by id: a replayed event is recognised and changes nothing. */
+export const stripeEvents = mysqlTable("stripe_events", {
+  id: varchar("id", { length: 80 }).primaryKey(),
+  type: varchar("type", { length: 80 }).notNull(),
+  workspaceId: ref("workspace_id"),
+  eventCreatedAt: datetime("event_created_at", { mode: "date" }).notNull(),
+  processedAt: createdAt(),
+});
+
+// ── Field checks ────────────────────────────────────────────────────────────────────────────
+/** A project shared with another workspace (e.g. the contractor commissioning it). */
+export const projectShares = mysqlTable(
+  "project_shares",
+  {
+    id: id(),
+    projectId: ref("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("project_shares_uq").on(t.projectId, t.workspaceId)],
+);
+
+export const VERDICTS = ["pass", "marginal", "fail", "unknown"] as const;
+
+/** Site readings against a selection. Never edited: an amendment is a new version of the same chain. */
+export const fieldChecks = mysqlTable(
+  "field_checks",
+  {
+    id: id(),
+    selectionId: ref("selection_id")
+      .notNull()
+      .references(() => selections.id, { onDelete: "cascade" }),
+    /** Id of the first version of this check (itself for version 1). */
+    chainId: ref("chain_id"),
+    version: int("version").notNull().default(1),
+    workspaceId: ref("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    readingsJson: mediumtext("readings_json").notNull(),
+    resultJson: mediumtext("result_json").notNull(),
+    verdict: mysqlEnum("verdict", VERDICTS).notNull(),
+    grade: varchar("grade", { length: 20 }).notNull(),
+    notes: text("notes").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("field_checks_selection_idx").on(t.selectionId), index("field_checks_chain_idx").on(t.chainId)],
+);
+
+export const fieldCheckPhotos = mysqlTable(
+  "field_check_photos",
+  {
+    id: id(),
+    fieldCheckId: ref("field_check_id")
+      .notNull()
+      .references(() => fieldChecks.id, { onDelete: "cascade" }),
+    filename: varchar("filename", { length: 255 }).notNull(),
+    contentType: varchar("content_type", { length: 60 }).notNull(),
+    sizeBytes: int("size_bytes").notNull(),
+    sha256: varchar("sha256", { length: 64 }).notNull(),
+    content: longblob("content").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("field_check_photos_check_idx").on(t.fieldCheckId)],
 );
