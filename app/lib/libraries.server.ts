@@ -6,7 +6,7 @@ import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
 import { db, withTransaction } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, uploads, workspaces, type Visibility } from "@db/schema";
-import { analyseCsv, MappingSchema, type AnalyseResult, type Mapping } from "./import";
+import { analyseCsv, CurveSetSchema, MappingSchema, type AnalyseResult, type Mapping } from "./import";
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
 import * as v from "valibot";
@@ -210,7 +210,8 @@ export async function importUpload(
 ) {
   const { lib, upload, text } = await getUpload(viewer, libraryId, uploadId);
   const analysis = analyseCsv(text, mapping);
-  const good = analysis.result.curveSets.filter((c) => c.ok);
+  // Re-check what is about to be written with the import core's own output schema (finite, SI, ≥ 3 points).
+  const good = analysis.result.curveSets.filter((c) => c.ok && v.safeParse(CurveSetSchema, c).success);
   if (good.length === 0) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
   const skipped = analysis.result.curveSets.length - good.length;
   return withTransaction(async (tx, conn) => {
@@ -237,42 +238,51 @@ export async function importUpload(
         createdBy: viewer.userId,
       })
       .$returningId();
-    const pointRows: (number | null)[][] = [];
-    for (const [name, sets] of models) {
-      const diameters = sets.map((s) => s.impellerDiameter).filter((d): d is number => d != null);
-      const speeds = sets.map((s) => s.speed).filter((d): d is number => d != null);
-      const [{ id: modelId }] = await tx
-        .insert(pumpModels)
-        .values({
-          revisionId,
-          name: name.slice(0, 160),
-          type: (sets[0].type ?? "").slice(0, 80),
-          nominalSize: (sets[0].size ?? "").slice(0, 60),
-          ratedSpeed: speeds.length ? Math.max(...speeds) : null,
-          impellerMin: diameters.length ? Math.min(...diameters) : null,
-          impellerMax: diameters.length ? Math.max(...diameters) : null,
-          notes: (sets[0].notes ?? "").slice(0, 1000),
-        })
-        .$returningId();
-      for (const c of sets) {
-        const heads = c.points.map((p) => p.head);
-        const [{ id: setId }] = await tx
-          .insert(curveSets)
-          .values({
-            modelId,
-            revisionId,
-            speed: c.speed,
-            impellerDiameter: c.impellerDiameter,
-            flowMin: c.points[0].flow,
-            flowMax: c.points[c.points.length - 1].flow,
-            headMax: Math.max(...heads),
-            headMin: Math.min(...heads),
-            pointCount: c.points.length,
-          })
-          .$returningId();
-        c.points.forEach((p, i) => pointRows.push([setId, i, p.flow, p.head, p.efficiency ?? null, p.power ?? null, p.npshr ?? null]));
+    // Models, then curve sets, as multi-row INSERTs; their ids are read back by revision (no
+    // reliance on consecutive auto-increment values, which Galera's interleaved mode does not give).
+    const modelRows = [...models].map(([name, sets]) => {
+      const diameters = sets.map((x) => x.impellerDiameter).filter((d): d is number => d != null);
+      const speeds = sets.map((x) => x.speed).filter((d): d is number => d != null);
+      return {
+        revisionId,
+        name: name.slice(0, 160),
+        type: (sets[0].type ?? "").slice(0, 80),
+        nominalSize: (sets[0].size ?? "").slice(0, 60),
+        ratedSpeed: speeds.length ? Math.max(...speeds) : null,
+        impellerMin: diameters.length ? Math.min(...diameters) : null,
+        impellerMax: diameters.length ? Math.max(...diameters) : null,
+        notes: (sets[0].notes ?? "").slice(0, 1000),
+      };
+    });
+    for (let i = 0; i < modelRows.length; i += ROW_BATCH) await tx.insert(pumpModels).values(modelRows.slice(i, i + ROW_BATCH));
+    const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
+    const setRows = good.map((c, i) => {
+      let lo = Infinity, hi = -Infinity;
+      for (const p of c.points) {
+        if (p.head < lo) lo = p.head;
+        if (p.head > hi) hi = p.head;
       }
+      return {
+        modelId: modelIds.get(c.model.slice(0, 160))!,
+        revisionId,
+        speed: c.speed,
+        impellerDiameter: c.impellerDiameter,
+        flowMin: c.points[0].flow,
+        flowMax: c.points[c.points.length - 1].flow,
+        headMax: hi,
+        headMin: lo,
+        pointCount: c.points.length,
+        seq: i,
+      };
+    });
+    for (let i = 0; i < setRows.length; i += ROW_BATCH) {
+      await tx.insert(curveSets).values(setRows.slice(i, i + ROW_BATCH).map(({ seq: _seq, ...r }) => r));
     }
+    // Curve sets come back in insertion order (ascending id within this revision).
+    const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
+    if (setIds.length !== good.length) throw new Error(`import: expected ${good.length} curve sets, found ${setIds.length}`);
+    const pointRows: (number | null)[][] = [];
+    good.forEach((c, i) => c.points.forEach((p, j) => pointRows.push([setIds[i], j, p.flow, p.head, p.efficiency ?? null, p.power ?? null, p.npshr ?? null])));
     await insertPoints(conn, pointRows);
     await tx
       .update(libraries)
@@ -282,6 +292,8 @@ export async function importUpload(
     return { revisionId, number: Number(n) + 1, models: models.size, curves: good.length, points: pointCount, skipped };
   });
 }
+
+const ROW_BATCH = 1000;
 
 /** Multi-row INSERTs of curve points in batches on the transaction's connection. */
 export async function insertPoints(conn: PoolConnection, rows: (number | null)[][]) {

@@ -110,14 +110,14 @@ describe("truncated files", () => {
     expect(a.result.curveSets.filter((c) => c.ok)).toHaveLength(a.result.curveSets.length - 1);
   });
 
-  it("cut right after the impeller cell: the row has no point values and is skipped with a warning (documented footer rule)", () => {
+  it("cut right after the impeller cell: the row names its curve, so the curve is flagged, not imported a point short", () => {
     const cut = lines.slice(0, k).join("\n") + "\n" + lines[k].split(",").slice(0, 5).join(",") + ",";
     const a = analyse(cut);
-    expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[k + 1, "no-point-values", "warning"]]); // source: README (rows without point values)
-    // so the curve is imported one point short without an error (see report: worth making this an error when the row has a model)
+    const errs = a.result.problems.filter((p) => p.severity === "error");
+    expect(errs.length).toBeGreaterThan(0);
+    expect(errs.every((p) => p.row === k + 1 && p.code === "missing-value")).toBe(true); // source: our importer's rule (a keyed row without flow/head is cut short)
     const c = a.result.curveSets.find((c) => c.key === `${model}|${speed}|${mm}`)!;
-    expect(c.ok).toBe(true);
-    expect(c.sourceRows.at(-1)).toBe(k); // source: construction (line k is the last whole row)
+    expect(c.ok).toBe(false);
   });
 
   it("cut inside a quoted cell: a CSV syntax error on that line", () => {
@@ -141,8 +141,12 @@ describe("degenerate files", () => {
     const a = analyse(file("clean").split("\n")[0] + "\n");
     expect([a.rows.length, a.result.curveSets.length]).toEqual([0, 0]); // source: construction
   });
-  // Wanted (see report): a file without data rows should say so instead of returning no problem at all.
-  it.todo("headers only: a problem names the missing data rows");
+  it("headers only: a problem names the missing data rows", () => {
+    const a = analyse(file("clean").split("\n")[0] + "\n");
+    const p = a.result.problems.find((x) => x.severity === "error");
+    expect(p?.reason).toMatch(/no data rows/); // source: our importer's rule
+    expect(p?.row).toBe(1); // source: construction (the header is line 1)
+  });
 
   it("only commas: no curves, a mapping error, and the suggested mapping is refused by MappingSchema (ValiError)", () => {
     const t = ",,,,,,\n".repeat(50);
@@ -213,16 +217,15 @@ describe("huge and non-finite numbers", () => {
     ]); // source: numbers.ts (only decimal notation is a number)
   });
 
-  it("1e308 is a (finite) number and goes through when it fits the unit", () => {
+  it("1e308 m of head is finite but no physical value: refused (limit 1e12 in SI units)", () => {
     const a = analyse(H + [ok("0", "1e308"), ok("1", "1e308"), ok("2", "1e307")].join("\n"));
-    expect(a.result.problems).toEqual([]);
-    expect(a.result.curveSets[0].points[0].head).toBe(1e308); // source: input (head in m, factor 1)
+    const heads = a.result.problems.filter((p) => p.column === "head_m");
+    expect(heads.map((p) => [p.row, p.code])).toEqual([[2, "not-a-number"], [3, "not-a-number"], [4, "not-a-number"]]); // source: our importer's rule (|value| ≤ 1e12 SI); rows 2–4 by construction
+    expect(a.result.curveSets.every((c) => !c.ok)).toBe(true);
   });
 
-  // KNOWN BUG (see report): "1e309" parses to Infinity, and 1e308 kW × 1000 overflows to Infinity W;
-  // both are accepted as point values and the curve is marked ok although CurveSetSchema (finite)
-  // refuses it. Remove `.fails` once validate.ts rejects non-finite values after unit conversion.
-  it.fails("1e309 and an overflowing 1e308 kW are refused, never accepted as Infinity", () => {
+  // "1e309" parses to Infinity, and 1e308 kW × 1000 overflows to Infinity W: both must be refused.
+  it("1e309 and an overflowing 1e308 kW are refused, never accepted as Infinity", () => {
     const t = H + [ok("0", "10"), ok("1e309", "9"), ok("2", "8", "1e308"), ok("3", "7"), ok("4", "6")].join("\n");
     const a = analyseCsv(t);
     expect(a.result.problems.map((p) => [p.row, p.column, p.severity])).toEqual([[3, "flow_m3h", "error"], [4, "power_kw", "error"]]); // source: construction

@@ -46,7 +46,11 @@ export function analyseCsv(text: string, mapping?: unknown): AnalyseResult {
   const result = fatal
     ? validateLongRows([], { decimalComma: sniff.decimalComma, headerLine })
     : validateLongRows(long.rows, { decimalComma: sniff.decimalComma, headerLine });
-  const problems = [...structural, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
+  const empty: Problem[] =
+    rows.length === 0 && !fatal
+      ? [{ row: headerLine, column: null, reason: "the file has no data rows below its header", severity: "error", code: "missing-value", curveKey: null }]
+      : [];
+  const problems = [...structural, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
   return {
     sniff,

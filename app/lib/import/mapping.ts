@@ -294,6 +294,13 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
 
     if (blocks.length === 0) {
       if (POINT_FIELDS.every((f) => !base[f] || base[f]!.raw.trim() === "")) {
+        // A row naming its curve (model with speed or impeller) but no point values was cut short:
+        // pass it on so validation charges "flow is empty" to that curve instead of skipping it quietly.
+        const keyed = (base.model?.raw.trim() ?? "") !== "" && ((base.speed?.raw.trim() ?? "") !== "" || (base.impeller?.raw.trim() ?? "") !== "");
+        if (keyed && !(base.speed?.preset !== undefined && base.impeller?.preset !== undefined && !row.cells[modelCol?.index ?? -1]?.trim())) {
+          out.push({ line: row.line, block: 0, cells: base });
+          continue;
+        }
         if (!(mapping.fillDownModel && modelCol && row.cells[modelCol.index]?.trim()))
           problems.push({ row: row.line, column: null, reason: "row has no point values (flow, head...); skipped", severity: "warning", code: "no-point-values", curveKey: null });
         continue;

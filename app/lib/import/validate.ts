@@ -164,7 +164,13 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
           cell.unit === "%" ? `efficiency ${value} % is above 100 %` : `efficiency ${value} is above 1 (100 %) — is the column in percent?`);
         return null;
       }
-      return value * factor;
+      const si = value * factor;
+      // Overflowing text ("1e309", or 1e308 kW once in watts) would reach the database as ±Infinity.
+      if (!Number.isFinite(si) || Math.abs(si) > 1e12) {
+        bad(cell.column, "not-a-number", `${FIELD_LABEL[field]} “${cell.raw.trim()}” is too large to be a real value`);
+        return null;
+      }
+      return si;
     };
 
     const modelCell = lr.cells.model;

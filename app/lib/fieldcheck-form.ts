@@ -1,0 +1,224 @@
+// The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
+// database, no React; the server validates with it and the record page prefills amendments from it.
+// Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
+import { toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+
+export type GaugeRef = "gauge" | "absolute";
+
+/** One gauge as read on site, SI. */
+export type GaugeSI = {
+  /** Pressure as read, Pa, on the stated reference. */
+  pressure: number;
+  reference: GaugeRef;
+  /** Gauge elevation above a common datum, m. */
+  elevation: number;
+  /** Pipe inner diameter at the tap, m. */
+  diameter: number;
+  /** Gauge accuracy, ± Pa (0 when not stated). */
+  accuracy: number;
+};
+
+export type SpeedSI =
+  | { mode: "none" }
+  | { mode: "rpm"; rpm: number }
+  /** VFD frequency with the motor's base frequency and base (nameplate) speed. */
+  | { mode: "vfd"; hz: number; baseHz: number; baseRpm: number };
+
+export type PowerSI =
+  | { mode: "none" }
+  /** Motor input power, W, read from a meter or the drive. */
+  | { mode: "input"; watts: number; motorEfficiency: number | null }
+  | { mode: "electrical"; volts: number; amps: number; powerFactor: number; phases: 1 | 3; motorEfficiency: number | null };
+
+/** Everything read on site, SI. */
+export type Readings = {
+  suction: GaugeSI;
+  discharge: GaugeSI;
+  /** Flow meter reading, m³/s, or null without a meter. */
+  flow: number | null;
+  /** Flow meter accuracy as a fraction of reading (0 when not stated). */
+  flowAccuracy: number;
+  speed: SpeedSI;
+  power: PowerSI;
+  /** Fluid temperature, °C. */
+  temperatureC: number;
+};
+
+export const PRESSURE_UNITS = ["kPa", "bar", "psi", "Pa"] as const;
+export const ELEVATION_UNITS = ["m", "mm", "ft", "in"] as const;
+export const DIAMETER_UNITS = ["mm", "in", "m"] as const;
+export const FLOW_UNITS = ["m3/h", "L/s", "L/min", "gpm", "m3/s"] as const;
+export const POWER_UNITS = ["kW", "W", "hp"] as const;
+export const TEMPERATURE_UNITS = ["C", "F"] as const;
+
+/** Form field names and their raw string values (what the contractor typed). */
+export type CheckFields = Record<string, string>;
+
+export const labelOf = (q: Quantity, unit: string) => unitLabel(q, unit);
+
+/** Defaults for a blank form in the user's unit system; pipe diameters from the selection when known (m). */
+export function blankFields(sys: "SI" | "US", pipe: { suction?: number | null; discharge?: number | null } = {}): CheckFields {
+  const u = UNIT_SYSTEMS[sys];
+  const dUnit = u.diameter === "in" ? "in" : "mm";
+  const d = (m?: number | null) => (m && m > 0 ? String(Number((dUnit === "in" ? m / 0.0254 : m * 1000).toFixed(dUnit === "in" ? 3 : 1))) : "");
+  return {
+    pressureUnit: sys === "US" ? "psi" : "kPa",
+    sRef: "gauge",
+    dRef: "gauge",
+    sPressure: "",
+    dPressure: "",
+    sAccuracy: "",
+    dAccuracy: "",
+    elevationUnit: sys === "US" ? "ft" : "m",
+    sElevation: "0",
+    dElevation: "0",
+    diameterUnit: dUnit,
+    sDiameter: d(pipe.suction),
+    dDiameter: d(pipe.discharge),
+    flowUnit: sys === "US" ? "gpm" : "m3/h",
+    flow: "",
+    flowAccuracy: "",
+    speedMode: "rpm",
+    rpm: "",
+    hz: "",
+    baseHz: "50",
+    baseRpm: "",
+    powerMode: "none",
+    powerUnit: sys === "US" ? "hp" : "kW",
+    power: "",
+    volts: "",
+    amps: "",
+    powerFactor: "",
+    phases: "3",
+    motorEfficiency: "",
+    temperatureUnit: sys === "US" ? "F" : "C",
+    temperature: sys === "US" ? "68" : "20",
+    notes: "",
+  };
+}
+
+export type ParseResult = { ok: true; readings: Readings; notes: string; fields: CheckFields } | { ok: false; errors: Record<string, string>; fields: CheckFields };
+
+const MAX_NOTES = 4000;
+
+/**
+ * Reads the raw form into SI readings, with a message per bad field. Limits are plausibility
+ * bounds for building-services and water pumps (common practice), not physics.
+ */
+export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
+  const f: CheckFields = {};
+  for (const [k, v] of Object.entries(raw)) if (typeof v === "string") f[k] = v.trim();
+  const errors: Record<string, string> = {};
+  const pick = <T extends string>(key: string, allowed: readonly T[], fallback: T): T => {
+    const v = f[key];
+    if (v === undefined || v === "") return fallback;
+    if ((allowed as readonly string[]).includes(v)) return v as T;
+    errors[key] = "Choose one of the listed options.";
+    return fallback;
+  };
+  /** A number in `unit` → SI; required unless `optional`; bounds in SI. */
+  const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean } = {}): number | null => {
+    const s = (f[key] ?? "").replace(",", ".");
+    if (s === "") {
+      if (!opts.optional) errors[key] = `Enter ${label}.`;
+      return null;
+    }
+    if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(s)) {
+      errors[key] = `${capital(label)} must be a number.`;
+      return null;
+    }
+    const x = Number(s);
+    const si = q ? toSI(q, unit, x) : x;
+    if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
+      errors[key] = `${capital(label)} is too low: check the value and its unit.`;
+      return null;
+    }
+    if (opts.max !== undefined && si > opts.max) {
+      errors[key] = `${capital(label)} is too high: check the value and its unit.`;
+      return null;
+    }
+    return si;
+  };
+
+  const pUnit = pick("pressureUnit", PRESSURE_UNITS, "kPa");
+  const eUnit = pick("elevationUnit", ELEVATION_UNITS, "m");
+  const dUnit = pick("diameterUnit", DIAMETER_UNITS, "mm");
+  const qUnit = pick("flowUnit", FLOW_UNITS, "m3/h");
+  const wUnit = pick("powerUnit", POWER_UNITS, "kW");
+  const tUnit = pick("temperatureUnit", TEMPERATURE_UNITS, "C");
+
+  const gauge = (p: "s" | "d", side: string): GaugeSI | null => {
+    const reference = pick(`${p}Ref`, ["gauge", "absolute"] as const, "gauge");
+    // Gauge: from full vacuum (−1 atm) to 1000 bar; absolute: from 0.
+    const pressure = num(`${p}Pressure`, `the ${side} pressure`, "pressure", pUnit, { min: reference === "absolute" ? 0 : -101_325, max: 1e8 });
+    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7 }) ?? 0;
+    const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });
+    const diameter = num(`${p}Diameter`, `the ${side} pipe inner diameter`, "diameter", dUnit, { min: 0.005, max: 3 });
+    if (pressure === null || elevation === null || diameter === null) return null;
+    return { pressure, reference, elevation, diameter, accuracy };
+  };
+  const suction = gauge("s", "suction");
+  const discharge = gauge("d", "discharge");
+  const flow = num("flow", "the flow reading", "flow", qUnit, { optional: true, min: 0, max: 100 });
+  const flowAccPct = num("flowAccuracy", "the flow meter accuracy", null, "", { optional: true, min: 0, max: 50 });
+
+  let speed: SpeedSI = { mode: "none" };
+  const speedMode = pick("speedMode", ["rpm", "vfd"] as const, "rpm");
+  if (speedMode === "rpm") {
+    const rpm = num("rpm", "the speed", null, "", { optional: true, min: 100, max: 10_000 });
+    if (rpm !== null) speed = { mode: "rpm", rpm };
+  } else {
+    const hz = num("hz", "the drive frequency", null, "", { min: 5, max: 120 });
+    const baseHz = num("baseHz", "the motor's base frequency", null, "", { min: 25, max: 120 });
+    const baseRpm = num("baseRpm", "the motor's base speed", null, "", { min: 100, max: 10_000 });
+    if (hz !== null && baseHz !== null && baseRpm !== null) speed = { mode: "vfd", hz, baseHz, baseRpm };
+  }
+
+  let power: PowerSI = { mode: "none" };
+  const powerMode = pick("powerMode", ["none", "input", "electrical"] as const, "none");
+  const motorEffPct = powerMode === "none" ? null : num("motorEfficiency", "the motor efficiency", null, "", { optional: true, min: 30, max: 100 });
+  const motorEfficiency = motorEffPct === null ? null : motorEffPct / 100;
+  if (powerMode === "input") {
+    const watts = num("power", "the motor input power", "power", wUnit, { min: 0, minOpen: true, max: 5e6 });
+    if (watts !== null) power = { mode: "input", watts, motorEfficiency };
+  } else if (powerMode === "electrical") {
+    const volts = num("volts", "the voltage", null, "", { min: 50, max: 15_000 });
+    const amps = num("amps", "the current", null, "", { min: 0, minOpen: true, max: 5000 });
+    const powerFactor = num("powerFactor", "the power factor", null, "", { min: 0.05, max: 1 });
+    const phases = pick("phases", ["1", "3"] as const, "3");
+    if (volts !== null && amps !== null && powerFactor !== null) power = { mode: "electrical", volts, amps, powerFactor, phases: phases === "1" ? 1 : 3, motorEfficiency };
+  }
+
+  const temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit, { min: -20, max: 200 });
+  const notes = f.notes ?? "";
+  if (notes.length > MAX_NOTES) errors.notes = `Keep the notes under ${MAX_NOTES} characters.`;
+  if (Object.keys(errors).length || !suction || !discharge || temperatureC === null) return { ok: false, errors, fields: f };
+  return {
+    ok: true,
+    readings: { suction, discharge, flow, flowAccuracy: (flowAccPct ?? 0) / 100, speed, power, temperatureC },
+    notes,
+    fields: f,
+  };
+}
+
+function capital(s: string) {
+  const t = s.replace(/^the /, "");
+  return t.charAt(0).toUpperCase() + t.slice(1);
+}
+
+/** Speed in rpm from the readings (VFD: base speed × f / f_base, ignoring the change of slip — common practice). */
+export function speedRpm(s: SpeedSI): number | null {
+  if (s.mode === "rpm") return s.rpm;
+  if (s.mode === "vfd") return (s.baseRpm * s.hz) / s.baseHz;
+  return null;
+}
+
+/**
+ * Electrical input power, W. Three-phase: P = √3·V_LL·I·PF; single-phase: P = V·I·PF
+ * (standard AC power relations, e.g. IEC 60050 / any electrical handbook; V line-to-line for three-phase).
+ */
+export function inputPowerW(p: PowerSI): number | null {
+  if (p.mode === "input") return p.watts;
+  if (p.mode === "electrical") return (p.phases === 3 ? Math.sqrt(3) : 1) * p.volts * p.amps * p.powerFactor;
+  return null;
+}
