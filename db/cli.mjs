@@ -274,6 +274,8 @@ async function test() {
 
 async function bench() {
   const env = await prepare(process.env.DB_NAME_BENCH ?? "dutymark_bench", { fresh: true });
+  env.NODE_ENV = "production";
+  await mustRun("build", npmBin("react-router"), ["build"], env);
   const code = await run(npmBin("tsx"), ["app/bench/index.ts"], env);
   await stopAll(code);
 }

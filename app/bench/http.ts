@@ -1,0 +1,177 @@
+// HTTP benchmarks on loopback (run by `npm run bench`, which sets DATABASE_URL and builds the app):
+//  1. the calc API (POST /api/v1/calc/pipe-loss, token caller, through the whole app server) against a
+//     bare node:http server doing the same JSON → engine → JSON, same run, same autocannon settings;
+//  2. the pump-search page of a system with 10 000 curve sets in the libraries open to the workspace.
+// Bounded: fixed durations, loopback only, everything it starts is stopped at the end.
+import http from "node:http";
+import { spawn } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import autocannon from "autocannon";
+import { runCalc } from "~/lib/calc-api.server";
+import { createApiToken } from "~/lib/accounts.server";
+import { startSession } from "~/lib/auth.server";
+import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored } from "~/lib/libraries.server";
+import { addCandidate, createProject, createSystem } from "~/lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
+import { makeMember } from "~/test/harness";
+import { closeDb } from "@db/client.server";
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+const BODY = JSON.stringify({ flow_m3s: 0.1, diameter_m: 0.2, length_m: 100, roughness_m: 0.00026, temperature_c: 15.6 });
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const CONNECTIONS = 32;
+
+type Load = { label: string; rps: number; p50: number; p99: number; errors: number; non2xx: number; requests: number };
+
+async function load(label: string, url: string, headers: Record<string, string>, opts: { method?: "GET" | "POST"; body?: string; connections?: number; duration?: number } = {}): Promise<Load> {
+  const r = await autocannon({ url, method: opts.method ?? "POST", headers, body: opts.body, connections: opts.connections ?? CONNECTIONS, duration: opts.duration ?? SECONDS });
+  return { label, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts, non2xx: r.non2xx, requests: r.requests.total };
+}
+
+function bareServer(): Promise<{ url: string; close: () => Promise<void> }> {
+  const server = http.createServer((req, res) => {
+    const chunks: Buffer[] = [];
+    req.on("data", (c) => chunks.push(c));
+    req.on("end", () => {
+      const out = runCalc("pipe-loss", JSON.parse(Buffer.concat(chunks).toString("utf8")));
+      res.writeHead(out.ok ? 200 : 400, { "Content-Type": "application/json" });
+      res.end(JSON.stringify(out.ok ? out.body : out.errors));
+    });
+  });
+  return new Promise((resolve) =>
+    server.listen(0, "127.0.0.1", () => {
+      const port = (server.address() as { port: number }).port;
+      resolve({ url: `http://127.0.0.1:${port}`, close: () => new Promise((r) => server.close(() => r())) });
+    }),
+  );
+}
+
+async function appServer(port: number): Promise<{ url: string; close: () => Promise<void> }> {
+  const child = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+    cwd: ROOT,
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: `http://127.0.0.1:${port}`, MAIL_FLUSH_INTERVAL_MS: "0" },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+  const url = `http://127.0.0.1:${port}`;
+  let up = false;
+  for (let i = 0; i < 200 && !up && child.exitCode === null; i++) {
+    try {
+      up = (await fetch(`${url}/healthz`)).ok;
+    } catch {}
+    if (!up) await new Promise((r) => setTimeout(r, 100));
+  }
+  if (!up) {
+    child.kill("SIGKILL");
+    throw new Error("the app server did not start (is the app built? npm run bench builds it)");
+  }
+  return {
+    url,
+    close: () =>
+      new Promise((r) => {
+        child.once("exit", () => r());
+        child.kill("SIGTERM");
+      }),
+  };
+}
+
+/** 10 000 curve sets (1000 models × 10 curves × 8 points), imported through the service like any upload. */
+function bigLibraryCsv(models = 1000): string {
+  const lines = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m"];
+  for (let m = 0; m < models; m++) {
+    const scale = 0.5 + (m % 50) / 25; // 0.5 … 2.46
+    for (const speed of [2900, 1450]) {
+      for (const d of [250, 235, 220, 205, 190]) {
+        const r = (speed / 2900) * (d / 250);
+        const h0 = 40 * scale * r * r;
+        const qmax = 60 * scale * r;
+        for (let i = 0; i < 8; i++) {
+          const q = (qmax * i) / 7;
+          const h = h0 * (1 - 0.6 * (q / qmax) ** 2);
+          const eta = Math.max(0.01, 0.78 * (1 - ((q / qmax - 0.7) / 0.7) ** 2));
+          const p = (998.2 * 9.80665 * (q / 3600) * h) / eta / 1000 + 0.1;
+          lines.push(`Bench ${m},end-suction,DN${50 + (m % 8) * 25},${speed},${d},${q.toFixed(2)},${h.toFixed(2)},${(i === 0 ? 0 : eta * 100).toFixed(1)},${p.toFixed(3)},${(1 + 3 * (q / qmax) ** 2).toFixed(2)}`);
+        }
+      }
+    }
+  }
+  return lines.join("\n");
+}
+
+async function timed(url: string, cookie: string, n: number) {
+  const times: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const t0 = performance.now();
+    const res = await fetch(url, { headers: { cookie } });
+    await res.text();
+    if (!res.ok) throw new Error(`${url} answered ${res.status}`);
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  return { mean: times.reduce((s, x) => s + x, 0) / n, p50: times[Math.floor(n / 2)], max: times[n - 1] };
+}
+
+export async function runHttpBench() {
+  const eng = await makeMember("engineer");
+  const { token } = await createApiToken({ userId: eng.userId, workspaceId: eng.workspaceId, name: "bench", scope: "read" });
+  const bare = await bareServer();
+  const app = await appServer(3900 + Math.floor(Math.random() * 50));
+  const out: string[] = [];
+  try {
+    // Warm both up, then measure.
+    await load("warm", `${bare.url}/`, { "content-type": "application/json" }, { body: BODY, duration: 2 });
+    await load("warm", `${app.url}/api/v1/calc/pipe-loss`, { "content-type": "application/json", authorization: `Bearer ${token}` }, { body: BODY, duration: 2 });
+    const b = await load("bare node:http (same calculation)", `${bare.url}/`, { "content-type": "application/json" }, { body: BODY });
+    const a = await load("calc API, POST /api/v1/calc/pipe-loss", `${app.url}/api/v1/calc/pipe-loss`, { "content-type": "application/json", authorization: `Bearer ${token}` }, { body: BODY });
+    out.push(`HTTP on loopback, ${CONNECTIONS} connections, ${SECONDS} s each (autocannon)`);
+    out.push("");
+    out.push(`${"".padEnd(40)} ${"req/s".padStart(9)} ${"p50 ms".padStart(8)} ${"p99 ms".padStart(8)} ${"errors".padStart(7)} ${"non-2xx".padStart(8)}`);
+    for (const r of [b, a]) out.push(`${r.label.padEnd(40)} ${r.rps.toFixed(0).padStart(9)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.non2xx).padStart(8)}`);
+    out.push(`ratio calc API / bare: ${(a.rps / b.rps).toFixed(2)} (goal ≥ 0.4; p99 goal < 25 ms)`);
+    out.push("");
+
+    // The search page against 10 000 curve sets.
+    const dist = await makeMember("distributor", eng.workspaceId);
+    const viewer = { userId: dist.userId, workspace: { id: eng.workspaceId, name: "bench", slug: "bench", plan: "free" as const }, role: "distributor" as const };
+    const libId = await createLibrary(viewer, { name: "Bench 10k", description: "" });
+    const t0 = performance.now();
+    const csv = bigLibraryCsv();
+    const uploadId = await storeUpload(viewer, libId, new File([csv], "bench-10k.csv", { type: "text/csv" }));
+    const { text, lib } = await getUpload(viewer, libId, uploadId);
+    const imported = await importUpload(viewer, libId, uploadId, analyseStored(text, lib).mapping);
+    await updateLibrary(viewer, libId, { name: "Bench 10k", description: "", visibility: "workspace" });
+    const importS = (performance.now() - t0) / 1000;
+    const ev = { userId: eng.userId, workspace: { id: eng.workspaceId, name: "bench", slug: "bench", plan: "free" as const }, role: "engineer" as const };
+    const projectId = await createProject(ev, { name: "Bench", site: "", description: "" });
+    const input = { ...defaultSystemInput(), duty: { flow: 40 / 3600, head: 35 } };
+    const systemId = await createSystem(ev, projectId, "Bench system", input);
+    const firstSet = (await import("~/lib/libraries.server")).libraryCurves;
+    const sets = await firstSet(ev, libId);
+    for (const s of sets.slice(0, 3)) await addCandidate(ev, systemId, s.id, DEFAULT_ADJUSTMENT);
+    const cookie = (await startSession(eng.userId, new Request("http://127.0.0.1/"))).split(";")[0];
+    await timed(`${app.url}/systems/${systemId}/search`, cookie, 2);
+    const search = await timed(`${app.url}/systems/${systemId}/search`, cookie, 10);
+    const page = await timed(`${app.url}/systems/${systemId}`, cookie, 10);
+    out.push(`Libraries open to the workspace: ${imported.curves} curve sets, ${imported.points} points (imported in ${importS.toFixed(1)} s)`);
+    out.push(`${"".padEnd(40)} ${"mean ms".padStart(9)} ${"p50 ms".padStart(8)} ${"max ms".padStart(8)}`);
+    out.push(`${"GET /systems/:id/search (10 000 sets)".padEnd(40)} ${search.mean.toFixed(0).padStart(9)} ${search.p50.toFixed(0).padStart(8)} ${search.max.toFixed(0).padStart(8)}`);
+    out.push(`${"GET /systems/:id (3 candidates)".padEnd(40)} ${page.mean.toFixed(0).padStart(9)} ${page.p50.toFixed(0).padStart(8)} ${page.max.toFixed(0).padStart(8)}`);
+  } finally {
+    await app.close();
+    await bare.close();
+  }
+  return out.join("\n");
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
+  runHttpBench()
+    .then(async (t) => {
+      console.log(t);
+      await closeDb();
+    })
+    .catch(async (e) => {
+      console.error(e);
+      await closeDb().catch(() => {});
+      process.exit(1);
+    });
+}
