@@ -198,6 +198,8 @@ export const libraries = mysqlTable(
     visibility: mysqlEnum("visibility", VISIBILITIES).notNull().default("private"),
     currentRevisionId: ref("current_revision_id"),
     mappingJson: text("mapping_json"),
+    /** Set instead of deleting when selections still refer to the library's curves. */
+    archivedAt: datetime("archived_at", { mode: "date" }),
     createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
   },

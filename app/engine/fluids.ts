@@ -8,11 +8,14 @@
  *   with IAPWS-95 (IAPWS R6-95(2018), the scientific formulation) within 2e-5 relative over
  *   0–100 °C here — checked in fluids.test.ts against python3-iapws' IAPWS95.
  * - dynamic viscosity: IAPWS R12-08 (2008 formulation for the viscosity of ordinary water,
- *   eqs. 10–12) with the critical enhancement μ₂ = 1 (negligible away from the critical
- *   point, per R12-08), fed with the density above. Agrees with python3-iapws IAPWS95.mu
- *   within 5e-5 relative over 0–100 °C.
+ *   eqs. 10–12; Pa·s; valid for the stable liquid well beyond 0–100 °C) with the critical
+ *   enhancement μ₂ = 1 (negligible away from the critical point, per R12-08), fed with the
+ *   density above. Agrees with python3-iapws IAPWS95.mu within 5e-5 relative over 0–100 °C
+ *   (observed 2.2e-5, from the density difference).
  * - vapour pressure: IAPWS-IF97 Region 4 saturation-pressure equation (R7-97, eq. 30),
- *   closed form, valid 273.15–647.096 K. Matches python3-iapws `_PSat_T` to ~1e-15.
+ *   closed form, Pa, valid 273.15–647.096 K. Matches python3-iapws `_PSat_T` to ~1e-15;
+ *   differs from IAPWS-95's own saturation line by up to 7e-5 relative over 1–100 °C.
+ * Density in kg/m³; observed max difference from IAPWS-95 over 0–100 °C: 1.5e-5.
  */
 import { requireFinite, requirePositive, requireNonNegative, EngineInputError } from "./errors.ts";
 import { STANDARD_ATMOSPHERE } from "./units.ts";

@@ -119,3 +119,35 @@ describe("fluids and catalogue", () => {
     expect(material("cast-iron").roughnessNew).toBe(0.26e-3); // references.md (Moody, from memory)
   });
 });
+
+describe("Colebrook solver internals", () => {
+  it("lnFast matches Math.log to 2.3e-16 absolute (scaled by max(1, |ln x|)) over 1e-3..1e30", async () => {
+    const { lnFast } = await import("./friction.ts");
+    let seed = 3;
+    const rnd = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    let worst = 0;
+    for (let i = 0; i < 200_000; i++) {
+      const x = Math.exp(-6.9 + 76 * rnd());
+      const ref = Math.log(x);
+      worst = Math.max(worst, Math.abs(lnFast(x) - ref) / Math.max(1, Math.abs(ref)));
+    }
+    expect(worst).toBeLessThan(2.3e-16);
+    expect(lnFast(1)).toBe(0);
+    expect(lnFast(0)).toBe(-Infinity);
+    expect(Number.isNaN(lnFast(-1))).toBe(true);
+  });
+  it("solution satisfies the Colebrook equation to rounding for 100 000 random (Re, ε/D), Re 2e3–1e9, ε/D 0–0.1", () => {
+    let seed = 7;
+    const rnd = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    let worst = 0;
+    for (let i = 0; i < 100_000; i++) {
+      const re = Math.exp(Math.log(2e3) + rnd() * Math.log(1e9 / 2e3));
+      const ed = rnd() < 0.1 ? 0 : Math.exp(Math.log(1e-7) + rnd() * Math.log(0.1 / 1e-7));
+      const f = colebrook(re, ed);
+      // Residual of 1/√f + 2·log10(ε/3.7D + 2.51/(Re√f)), relative to 1/√f (Colebrook 1939).
+      const s = 1 / Math.sqrt(f);
+      worst = Math.max(worst, Math.abs(s + 2 * Math.log10(ed / 3.7 + (2.51 / re) * s)) / s);
+    }
+    expect(worst).toBeLessThan(1e-14);
+  });
+});

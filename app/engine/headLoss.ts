@@ -2,7 +2,7 @@
  * Pipe loss: Darcy friction factor with regime, and Darcy-Weisbach head loss
  * hf = (f·L/D + ΣK)·V²/(2g) (Darcy-Weisbach, common practice), or Hazen-Williams.
  */
-import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { EngineInputError, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { churchill, laminar } from "./friction.ts";
 import { CORRELATIONS, findCorrelation, rangeWarning, type DarcyCorrelation, type FrictionMethod, type HeadLossCorrelation } from "./registry.ts";
 import { G0 } from "./units.ts";

@@ -72,6 +72,28 @@ describe("searchDuty", () => {
   });
 });
 
+describe("index built from raw inputs equals index built from prepared curves", () => {
+  it("same candidates, methods, ratios and scores; power-only curves get an efficiency", () => {
+    const gen = generateCurveSets(300, 11);
+    // Every third set gives power instead of efficiency (P = ρ·g₀·Q·H/η, ρ = 1000).
+    gen.forEach((s, i) => {
+      if (i % 3 === 0) (s.curve as { points: { flow: number; head: number; efficiency?: number; power?: number }[] }).points.forEach((p) => {
+        if (p.flow > 0) p.power = (1000 * 9.80665 * p.flow * p.head) / p.efficiency!;
+        delete p.efficiency;
+      });
+    });
+    const raw = searchDuty(prepareSearchIndex(gen), { flow: 100 * M3H, head: 40 }, { limit: 1000 });
+    const prepared = searchDuty(prepareSearchIndex(gen.map((s) => ({ ...s, curve: createPumpCurve(s.curve as never) }))), { flow: 100 * M3H, head: 40 }, { limit: 1000 });
+    expect(raw.candidates.length).toBeGreaterThan(3);
+    expect(raw.candidates.map((c) => [c.id, c.method])).toEqual(prepared.candidates.map((c) => [c.id, c.method]));
+    raw.candidates.forEach((c, i) => {
+      expect(c.ratio).toBeCloseTo(prepared.candidates[i].ratio, 12);
+      expect(c.score).toBeCloseTo(prepared.candidates[i].score, 12);
+    });
+    expect(raw.candidates.filter((c) => Number(c.id.split("-")[1]) % 3 === 0).every((c) => c.efficiency !== null)).toBe(true);
+  });
+});
+
 describe("searchDuty over 10 000 generated curve sets (size check; timing is in app/bench/engine.ts)", () => {
   it("every candidate's (modified) curve meets the duty", () => {
     const gen = generateCurveSets(10_000, 7);

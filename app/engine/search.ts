@@ -70,26 +70,44 @@ export interface SearchIndex {
   rejected: { id: string; reason: string }[];
 }
 
+/** Growable Float64Array (doubling), to pack many small curves without per-curve objects. */
+class DoubleBuffer {
+  buf = new Float64Array(1024);
+  length = 0;
+  push(v: number) {
+    if (this.length === this.buf.length) {
+      const next = new Float64Array(this.buf.length * 2);
+      next.set(this.buf);
+      this.buf = next;
+    }
+    this.buf[this.length++] = v;
+  }
+  done(): Float64Array {
+    return this.buf.slice(0, this.length);
+  }
+}
+
 class PackBuilder {
   off: number[] = [0];
-  x: number[] = [];
-  y: number[] = [];
-  m: number[] = [];
+  x = new DoubleBuffer();
+  y = new DoubleBuffer();
+  m = new DoubleBuffer();
   add(c: MonotoneCubic | null) {
     if (c) for (let k = 0; k < c.x.length; k++) { this.x.push(c.x[k]); this.y.push(c.y[k]); this.m.push(c.m[k]); }
     this.off.push(this.x.length);
   }
-  /** Appends knots (x, y) and computes their Fritsch-Carlson tangents in place. */
+  /** Start of a curve whose knots are pushed next. */
   begin(): number { return this.x.length; }
-  push(x: number, y: number) { this.x.push(x); this.y.push(y); this.m.push(0.5); }
+  push(x: number, y: number) { this.x.push(x); this.y.push(y); this.m.push(0); }
+  /** Ends the curve started at `start`: Fritsch-Carlson tangents in place (fewer than 2 knots: no curve). */
   end(start: number) {
     const n = this.x.length - start;
     if (n < 2) { this.x.length = start; this.y.length = start; this.m.length = start; }
-    else fritschCarlsonTangents(this.x, this.y, this.m, start, n);
+    else fritschCarlsonTangents(this.x.buf, this.y.buf, this.m.buf, start, n);
     this.off.push(this.x.length);
   }
   build(): Packed {
-    return { off: Int32Array.from(this.off), x: Float64Array.from(this.x), y: Float64Array.from(this.y), m: Float64Array.from(this.m) };
+    return { off: Int32Array.from(this.off), x: this.x.done(), y: this.y.done(), m: this.m.done() };
   }
 }
 

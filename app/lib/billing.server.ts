@@ -207,10 +207,12 @@ export async function handleStripeWebhook(rawBody: string, signature: string | n
   const target = await locate(event);
   try {
     return await withTransaction(async (tx) => {
-      await tx.insert(stripeEvents).values({ id: event.id, type: event.type, workspaceId: target?.workspaceId ?? null, eventCreatedAt: new Date(event.created * 1000) });
+      // Lock order: the workspace row first (serialises events of one workspace), then the event id.
+      const [w] = target ? await tx.select().from(workspaces).where(eq(workspaces.id, target.workspaceId)).for("update") : [];
+      await tx.insert(stripeEvents).values({ id: event.id, type: event.type, workspaceId: w?.id ?? null, eventCreatedAt: new Date(event.created * 1000) });
       if (!HANDLED.has(event.type)) return { status: 200, body: { received: true, result: "ignored", type: event.type } };
-      if (!target) return { status: 200, body: { received: true, result: "no workspace for this event" } };
-      const result = await apply(tx, event, target);
+      if (!target || !w) return { status: 200, body: { received: true, result: "no workspace for this event" } };
+      const result = await apply(tx, event, target, w);
       return { status: 200, body: { received: true, result } };
     });
   } catch (e) {
@@ -265,9 +267,7 @@ async function locate(event: Stripe.Event): Promise<Target | null> {
   return exists ? { workspaceId: wsId, subscriptionId, customerId } : null;
 }
 
-async function apply(tx: Db, event: Stripe.Event, t: Target): Promise<string> {
-  const [w] = await tx.select().from(workspaces).where(eq(workspaces.id, t.workspaceId)).for("update");
-  if (!w) return "no workspace for this event";
+async function apply(tx: Db, event: Stripe.Event, t: Target, w: typeof workspaces.$inferSelect): Promise<string> {
   if (STATEFUL.includes(event.type)) {
     const [newer] = await tx
       .select({ id: stripeEvents.id })

@@ -5,6 +5,20 @@ import { toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 
 export type GaugeRef = "gauge" | "absolute";
 
+/** The grade preselected on the form (ISO 9906 grade 2B, a common acceptance grade for site work — common practice). */
+export const DEFAULT_GRADE = "2B";
+export const MAX_PHOTOS = 6;
+export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
+export type Verdict = "pass" | "marginal" | "fail" | "unknown";
+
+/** Words for the verdicts, the same on the form, the record, the list, the CSV and the e-mail. */
+export const VERDICT_TEXT: Record<Verdict, string> = {
+  pass: "within tolerance",
+  marginal: "at the tolerance limit (within the reading uncertainty)",
+  fail: "outside tolerance",
+  unknown: "no tolerance verdict (no flow meter)",
+};
+
 /** One gauge as read on site, SI. */
 export type GaugeSI = {
   /** Pressure as read, Pa, on the stated reference. */

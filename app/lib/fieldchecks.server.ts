@@ -28,7 +28,7 @@ import {
   type ToleranceGrade,
 } from "~/engine";
 import { fluidOf } from "./hydraulics";
-import { inputPowerW, speedRpm, type CheckFields, type Readings } from "./fieldcheck-form";
+import { inputPowerW, MAX_PHOTO_BYTES, MAX_PHOTOS, speedRpm, VERDICT_TEXT, type CheckFields, type Readings, type Verdict } from "./fieldcheck-form";
 import type { FrozenSelection } from "./projects.server";
 import type { Viewer } from "./libraries.server";
 import { sendMail } from "./mail.server";
@@ -36,20 +36,9 @@ import { escapeHtml, fieldCheckMail, oneLine } from "./mail-templates";
 import { appUrl } from "./accounts.server";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
-export const DEFAULT_GRADE = "2B";
-export const MAX_PHOTOS = 6;
-export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
-export type Verdict = "pass" | "marginal" | "fail" | "unknown";
+export { DEFAULT_GRADE, MAX_PHOTOS, MAX_PHOTO_BYTES, VERDICT_TEXT, type Verdict } from "./fieldcheck-form";
 
 const notFound = (what: string) => data(`No such ${what} open to this workspace.`, { status: 404 });
-
-/** Words for the verdicts, the same on the form, the record, the list and the e-mail. */
-export const VERDICT_TEXT: Record<Verdict, string> = {
-  pass: "within tolerance",
-  marginal: "at the tolerance limit (within the reading uncertainty)",
-  fail: "outside tolerance",
-  unknown: "no tolerance verdict (no flow meter)",
-};
 
 export function gradeById(id: string): ToleranceGrade | null {
   return TOLERANCE_GRADES.find((g) => g.id === id) ?? null;
@@ -451,7 +440,7 @@ export type NewCheck = { readings: Readings; fields: CheckFields; notes: string;
  * Records a check (or an amendment: a new version of the amended check's chain) with its photos,
  * in one transaction, then tells the engineer of the selection by e-mail.
  */
-export async function recordFieldCheck(viewer: Viewer, selectionId: number, input: NewCheck, photos: PhotoIn[] = []) {
+export async function recordFieldCheck(viewer: Viewer, selectionId: number, input: NewCheck, photos: PhotoIn[] = [], opts: { notify?: boolean } = {}) {
   const sel = await fieldSelection(viewer, selectionId);
   let amended: CheckRow | null = null;
   if (input.amends) {
@@ -495,11 +484,10 @@ export async function recordFieldCheck(viewer: Viewer, selectionId: number, inpu
       await tx.insert(fieldCheckPhotos).values({ fieldCheckId: id, filename: p.filename, contentType: p.contentType, sizeBytes: p.bytes.length, sha256: createHash("sha256").update(p.bytes).digest("hex"), content: p.bytes });
     return id;
   });
-  const mail = await notifyEngineer(viewer, sel, id, result, version(amended));
+  const mail = opts.notify === false ? null : await notifyEngineer(viewer, sel, id, result, amended ? "amended" : "new");
   return { id, result, mail };
 }
 
-const version = (amended: CheckRow | null) => (amended ? "amended" : "new");
 
 /** The sentence with the delivered duty point, SI display units (m³/h, m), for the e-mail. */
 export function deliveredSentence(r: CheckResult): string {

@@ -1,11 +1,11 @@
 // Pump libraries: listing with the plan gate, uploads kept byte for byte, server-side analysis
 // (never trusting the browser's parse), atomic imports into a new revision, curves for charts.
 import { createHash } from "node:crypto";
-import { and, asc, desc, eq, inArray, or, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
 import { db, withTransaction } from "@db/client.server";
-import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, uploads, workspaces, type Visibility } from "@db/schema";
+import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, selections, uploads, workspaces, type Visibility } from "@db/schema";
 import { analyseCsv, CurveSetSchema, MappingSchema, type AnalyseResult, type Mapping } from "./import";
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
@@ -49,7 +49,7 @@ export async function listLibraries(viewer: Viewer) {
     .from(libraries)
     .innerJoin(workspaces, eq(workspaces.id, libraries.workspaceId))
     .leftJoin(libraryRevisions, eq(libraryRevisions.id, libraries.currentRevisionId))
-    .where(or(eq(libraries.workspaceId, viewer.workspace.id), eq(libraries.visibility, "shared")))
+    .where(and(or(eq(libraries.workspaceId, viewer.workspace.id), eq(libraries.visibility, "shared")), isNull(libraries.archivedAt)))
     .orderBy(asc(libraries.name));
   const out = [];
   for (const r of rows) {
@@ -78,7 +78,7 @@ export async function getLibrary(viewer: Viewer, libraryId: number) {
     .from(libraries)
     .innerJoin(workspaces, eq(workspaces.id, libraries.workspaceId))
     .where(eq(libraries.id, libraryId));
-  const access = row ? accessTo(viewer, row.lib) : null;
+  const access = row && !row.lib.archivedAt ? accessTo(viewer, row.lib) : null;
   if (!row || !access) throw data("No such library in your reach.", { status: 404 });
   return { ...row.lib, ownerName: row.ownerName, access };
 }
@@ -380,4 +380,85 @@ export async function searchableRevisions(viewer: Viewer) {
     open: rows.filter((r) => r.currentRevisionId != null).map((r) => ({ libraryId: r.id, name: r.name, revisionId: r.currentRevisionId! })),
     locked: list.filter((l) => l.access === "locked"),
   };
+}
+
+/** Deletes a library, or archives it when selections still refer to its curves (they keep their frozen copies). */
+export async function deleteLibrary(viewer: Viewer, libraryId: number): Promise<"deleted" | "archived"> {
+  const lib = await getOwnLibraryForWrite(viewer, libraryId);
+  if (!can(viewer.role, "library.publish")) throw data("Your role cannot delete libraries.", { status: 403 });
+  const revs = (await db().select({ id: libraryRevisions.id }).from(libraryRevisions).where(eq(libraryRevisions.libraryId, lib.id))).map((r) => r.id);
+  const used = revs.length ? await db().select({ id: selections.id }).from(selections).where(inArray(selections.revisionId, revs)).limit(1) : [];
+  if (used.length) {
+    await db().update(libraries).set({ archivedAt: new Date(), visibility: "private" }).where(eq(libraries.id, lib.id));
+    return "archived";
+  }
+  await db().delete(libraries).where(eq(libraries.id, lib.id));
+  return "deleted";
+}
+
+export type ModelFilters = { q?: string; type?: string; size?: string; speed?: number; flow?: number; head?: number; sort?: "name" | "flow" | "head" };
+
+/** Models of a library's current revision with their curve sets (no points), filtered and sorted. */
+export async function listModels(viewer: Viewer, libraryId: number, f: ModelFilters = {}) {
+  const lib = await getLibrary(viewer, libraryId);
+  if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
+  if (!lib.currentRevisionId) return [];
+  const rows = await db()
+    .select({ m: pumpModels, s: curveSets })
+    .from(pumpModels)
+    .innerJoin(curveSets, eq(curveSets.modelId, pumpModels.id))
+    .where(eq(pumpModels.revisionId, lib.currentRevisionId))
+    .orderBy(asc(pumpModels.name), desc(curveSets.speed), desc(curveSets.impellerDiameter));
+  const byModel = new Map<number, { id: number; name: string; type: string; size: string; curves: { id: number; speed: number | null; impellerDiameter: number | null; flowMax: number; headMax: number; points: number }[] }>();
+  for (const r of rows) {
+    const m = byModel.get(r.m.id) ?? { id: r.m.id, name: r.m.name, type: r.m.type, size: r.m.nominalSize, curves: [] };
+    m.curves.push({ id: r.s.id, speed: r.s.speed, impellerDiameter: r.s.impellerDiameter, flowMax: r.s.flowMax, headMax: r.s.headMax, points: r.s.pointCount });
+    byModel.set(r.m.id, m);
+  }
+  const has = (a: string, b?: string) => !b || a.toLowerCase().includes(b.toLowerCase());
+  let list = [...byModel.values()].filter(
+    (m) =>
+      has(m.name, f.q) &&
+      has(m.type, f.type) &&
+      has(m.size, f.size) &&
+      (!f.speed || m.curves.some((c) => c.speed != null && Math.abs(c.speed - f.speed!) / f.speed! < 0.1)) &&
+      // "Covers the duty": some curve reaches the flow, and its shutoff head is above the head asked.
+      (!f.flow || m.curves.some((c) => c.flowMax >= f.flow!)) &&
+      (!f.head || m.curves.some((c) => c.headMax >= f.head! && (!f.flow || c.flowMax >= f.flow))),
+  );
+  const maxOf = (m: (typeof list)[number], k: "flowMax" | "headMax") => Math.max(...m.curves.map((c) => c[k]));
+  if (f.sort === "flow") list = list.sort((a, b) => maxOf(b, "flowMax") - maxOf(a, "flowMax"));
+  if (f.sort === "head") list = list.sort((a, b) => maxOf(b, "headMax") - maxOf(a, "headMax"));
+  return list;
+}
+
+/** One model with its curves (points included), through the same access rules as its library. */
+export async function getModel(viewer: Viewer, modelId: number) {
+  const [row] = await db()
+    .select({ m: pumpModels, libraryId: libraryRevisions.libraryId, revision: libraryRevisions.number })
+    .from(pumpModels)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, pumpModels.revisionId))
+    .where(eq(pumpModels.id, modelId));
+  if (!row) throw data("No such pump model in your reach.", { status: 404 });
+  const lib = await getLibrary(viewer, row.libraryId);
+  if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
+  const curves = (await curvesOfRevisions([row.m.revisionId])).filter((c) => c.modelId === row.m.id);
+  return { model: row.m, library: { id: lib.id, name: lib.name, owner: lib.ownerName }, revision: row.revision, curves };
+}
+
+export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
+
+/** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
+export function curvesToCsv(curves: LibraryCurveSet[]): string {
+  const q = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
+  const n = (x: number | null, scale: number, digits: number) => (x == null ? "" : String(+(x * scale).toFixed(digits)));
+  const lines = [EXPORT_HEADER];
+  for (const c of curves) {
+    for (const p of c.points) {
+      lines.push(
+        [q(c.model), q(c.type), q(c.nominalSize), n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)].join(","),
+      );
+    }
+  }
+  return lines.join("\n") + "\n";
 }

@@ -17,7 +17,7 @@ import {
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
-import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
+import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
 
 export const MAX_CANDIDATES = 6;
 const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
@@ -187,14 +187,17 @@ export type CandidateView = {
 
 export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
   const s = await getSystem(viewer, systemId);
-  const rows = await db()
-    .select({ c: candidates, revisionId: curveSets.revisionId, libraryName: libraries.name })
+  const all = await db()
+    .select({ c: candidates, revisionId: curveSets.revisionId, libraryName: libraries.name, libraryWorkspaceId: libraries.workspaceId, libraryVisibility: libraries.visibility })
     .from(candidates)
     .innerJoin(curveSets, eq(curveSets.id, candidates.curveSetId))
     .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
     .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
     .where(eq(candidates.systemId, s.id))
     .orderBy(asc(candidates.id));
+  // The plan gate: a candidate from another workspace's library (added while on the paid plan) shows no
+  // curve once the plan no longer opens it, or once its owner stops sharing it. Selections keep their frozen copy.
+  const rows = all.filter((r) => r.libraryWorkspaceId === viewer.workspace.id || (r.libraryVisibility === "shared" && planOpensShared(viewer.workspace.plan)));
   if (rows.length === 0) return [];
   const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
   return rows

@@ -1,8 +1,11 @@
 import * as v from "valibot";
-import { Form, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/guards.server";
-import { getLibrary, libraryCurves, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
+import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { toSI, UNIT_SYSTEMS } from "~/engine";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower } from "~/components/units";
 import { can } from "~/lib/permissions";
 import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
 import { VISIBILITIES } from "~/lib/constants";
@@ -15,31 +18,59 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.nam
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
-  const viewer = { userId: m.user.id, workspace: m.workspace, role: m.role };
+  const viewer = viewerOf(m);
   const id = v.parse(IdField, params.id);
   const lib = await getLibrary(viewer, id);
   const locked = lib.access === "locked";
   const owner = lib.access === "owner";
   const writer = owner && can(m.role, "library.write");
-  const [curves, revisions, pending] = await Promise.all([
-    locked ? Promise.resolve([]) : libraryCurves(viewer, id),
+  const url = new URL(request.url);
+  const sys = m.user.unitSystem as "SI" | "US";
+  const qp = (k: string) => url.searchParams.get(k)?.trim() ?? "";
+  const numIn = (k: string, q: "flow" | "head") => {
+    const x = Number(qp(k).replace(",", "."));
+    return Number.isFinite(x) && x > 0 ? toSI(q, UNIT_SYSTEMS[sys][q], x) : undefined;
+  };
+  const sort = qp("sort");
+  const filters = {
+    q: qp("q").slice(0, 80) || undefined,
+    type: qp("type").slice(0, 40) || undefined,
+    size: qp("size").slice(0, 40) || undefined,
+    speed: Number(qp("speed")) > 0 ? Number(qp("speed")) : undefined,
+    flow: numIn("flow", "flow"),
+    head: numIn("head", "head"),
+    sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",
+  };
+  const [models, revisions, pending] = await Promise.all([
+    locked ? Promise.resolve([]) : listModels(viewer, id, filters),
     locked ? Promise.resolve([]) : listRevisions(id),
     writer ? pendingUploads(id) : Promise.resolve([]),
   ]);
-  const url = new URL(request.url);
-  const models = [...new Map(curves.map((c) => [c.modelId, { id: c.modelId, name: c.model, type: c.type, size: c.nominalSize }])).values()];
   const modelId = Number(url.searchParams.get("model")) || models[0]?.id;
+  const selected = !locked && modelId ? await getModel(viewer, modelId).catch(() => null) : null;
   return {
     lib: { id: lib.id, name: lib.name, description: lib.description, visibility: lib.visibility, owner: lib.ownerName, access: lib.access },
     locked,
     writer,
     canPublish: owner && can(m.role, "library.publish"),
-    unitSystem: m.user.unitSystem,
-    models: models.map((mm) => ({ ...mm, curveCount: curves.filter((c) => c.modelId === mm.id).length })),
-    modelId,
-    curves: curves.filter((c) => c.modelId === modelId),
+    unitSystem: sys,
+    filters: { q: qp("q"), type: qp("type"), size: qp("size"), speed: qp("speed"), flow: qp("flow"), head: qp("head"), sort: filters.sort },
+    models: models.map((mm) => ({
+      id: mm.id,
+      name: mm.name,
+      type: mm.type,
+      size: mm.size,
+      curveCount: mm.curves.length,
+      flowMax: Math.max(...mm.curves.map((c) => c.flowMax)),
+      headMax: Math.max(...mm.curves.map((c) => c.headMax)),
+      speeds: [...new Set(mm.curves.map((c) => c.speed).filter((x): x is number => x != null))],
+    })),
+    modelId: selected?.model.id ?? null,
+    modelName: selected?.model.name ?? "",
+    curves: selected?.curves ?? [],
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
+    imported: url.searchParams.get("imported"),
   };
 }
 
@@ -52,9 +83,14 @@ const Settings = v.object({
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "library.write");
   const id = v.parse(IdField, params.id);
+  const form = await request.clone().formData();
+  if (form.get("intent") === "delete") {
+    const how = await deleteLibrary(viewerOf(m), id);
+    throw redirect(`/libraries?${how}=1`);
+  }
   const r = await readForm(request, Settings);
   if (!r.ok) return invalid(r.errors);
-  await updateLibrary({ userId: m.user.id, workspace: m.workspace, role: m.role }, id, r.value);
+  await updateLibrary(viewerOf(m), id, r.value);
   return { notice: "Library saved." };
 }
 
@@ -97,41 +133,114 @@ export default function LibraryPage() {
         </section>
       ) : (
         <>
-          <section className="panel">
-            <h2 className="text-lg font-semibold">Pump models</h2>
+          <section className="panel space-y-3">
+            <div className="flex flex-wrap items-baseline justify-between gap-2">
+              <h2 className="text-lg font-semibold">Pump models</h2>
+              <p className="text-sm">
+                Export: <a href={`/libraries/${d.lib.id}/export.csv`}>CSV</a> · <a href={`/libraries/${d.lib.id}/export.json`}>JSON</a>
+              </p>
+            </div>
+            {d.imported ? <Notice>Revision {d.imported} imported.</Notice> : null}
+            <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Filter models">
+              <label>
+                <span className="label">Name</span>
+                <input name="q" defaultValue={d.filters.q} className="field w-32" />
+              </label>
+              <label>
+                <span className="label">Type</span>
+                <input name="type" defaultValue={d.filters.type} className="field w-28" />
+              </label>
+              <label>
+                <span className="label">Size</span>
+                <input name="size" defaultValue={d.filters.size} className="field w-24" />
+              </label>
+              <label>
+                <span className="label">Speed (rpm)</span>
+                <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-20" />
+              </label>
+              <label>
+                <span className="label">Reaches flow ({d.unitSystem === "US" ? "gpm" : "m³/h"})</span>
+                <input name="flow" inputMode="decimal" defaultValue={d.filters.flow} className="field w-24" />
+              </label>
+              <label>
+                <span className="label">and head ({d.unitSystem === "US" ? "ft" : "m"})</span>
+                <input name="head" inputMode="decimal" defaultValue={d.filters.head} className="field w-20" />
+              </label>
+              <label>
+                <span className="label">Sort by</span>
+                <select name="sort" defaultValue={d.filters.sort} className="field w-auto">
+                  <option value="name">name</option>
+                  <option value="flow">largest flow</option>
+                  <option value="head">largest head</option>
+                </select>
+              </label>
+              <button className="btn-quiet">Filter</button>
+            </Form>
             {d.models.length === 0 ? (
-              <p className="mt-2 text-sm text-slate-600">No curves imported yet{d.writer ? ": upload a vendor CSV below." : "."}</p>
+              <p className="text-sm text-slate-600">No models{d.writer ? " yet: upload a vendor CSV below." : " match."}</p>
             ) : (
-              <div className="mt-2 grid gap-4 lg:grid-cols-[16rem_1fr]">
-                <nav aria-label="Models" className="max-h-[32rem] overflow-y-auto">
-                  <ul className="space-y-1 text-sm">
-                    {d.models.map((mm) => (
-                      <li key={mm.id}>
-                        <a
-                          href={`?model=${mm.id}`}
-                          aria-current={mm.id === d.modelId ? "page" : undefined}
-                          className={`block rounded px-2 py-1 ${mm.id === d.modelId ? "bg-brand-50 font-semibold" : ""}`}
-                        >
-                          {mm.name}
-                          <span className="ml-1 text-xs text-slate-500">
-                            {mm.curveCount} curve{mm.curveCount === 1 ? "" : "s"}
-                            {mm.type ? ` · ${mm.type}` : ""}
-                          </span>
-                        </a>
-                      </li>
-                    ))}
-                  </ul>
-                </nav>
-                <div>
+              <div className="grid gap-4 lg:grid-cols-[minmax(18rem,26rem)_1fr]">
+                <div className="max-h-[36rem] overflow-y-auto">
+                  <table className="w-full text-sm" aria-label="Models">
+                    <thead className="sticky top-0 bg-white text-left text-slate-600">
+                      <tr>
+                        <th className="py-1">Model</th>
+                        <th>Curves</th>
+                        <th>Max flow</th>
+                        <th>Max head</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      {d.models.map((mm) => (
+                        <tr key={mm.id} className={`border-t border-slate-100 ${mm.id === d.modelId ? "bg-brand-50" : ""}`}>
+                          <td className="py-1">
+                            <a href={`?${new URLSearchParams({ ...Object.fromEntries(Object.entries(d.filters).filter(([, x]) => x)), model: String(mm.id) })}`} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
+                              {mm.name}
+                            </a>
+                            <div className="text-xs text-slate-500">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
+                          </td>
+                          <td>{mm.curveCount}</td>
+                          <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>
+                          <td>{fmtHead(d.unitSystem, mm.headMax)}</td>
+                        </tr>
+                      ))}
+                    </tbody>
+                  </table>
+                </div>
+                <div className="space-y-3">
                   <CurvePreview
                     unitSystem={d.unitSystem}
-                    title={`Curves of ${d.models.find((x) => x.id === d.modelId)?.name ?? ""}`}
-                    curves={d.curves.map((c) => ({
-                      id: String(c.id),
-                      label: curveLabel(c.speed, c.impellerDiameter),
-                      points: c.points,
-                    }))}
+                    title={`Curves of ${d.modelName}`}
+                    curves={d.curves.map((c) => ({ id: String(c.id), label: curveLabel(c.speed, c.impellerDiameter), points: c.points }))}
                   />
+                  <details>
+                    <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
+                    {d.curves.map((c) => (
+                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${curveLabel(c.speed, c.impellerDiameter)}`}>
+                        <caption className="text-left font-semibold">{curveLabel(c.speed, c.impellerDiameter)}</caption>
+                        <thead className="text-left text-slate-600">
+                          <tr>
+                            <th>Flow</th>
+                            <th>Head</th>
+                            <th>Efficiency</th>
+                            <th>Shaft power</th>
+                            <th>NPSHr</th>
+                          </tr>
+                        </thead>
+                        <tbody>
+                          {c.points.map((p, i) => (
+                            <tr key={i} className="border-t border-slate-100">
+                              <td>{fmtFlow(d.unitSystem, p.flow)}</td>
+                              <td>{fmtHead(d.unitSystem, p.head)}</td>
+                              <td>{fmtPct(p.efficiency)}</td>
+                              <td>{fmtPower(d.unitSystem, p.power)}</td>
+                              <td>{p.npshr == null ? "—" : fmtHead(d.unitSystem, p.npshr)}</td>
+                            </tr>
+                          ))}
+                        </tbody>
+                      </table>
+                    ))}
+                  </details>
                 </div>
               </div>
             )}
@@ -212,6 +321,14 @@ export default function LibraryPage() {
               <button className="btn">Save</button>
             </div>
           </Form>
+          {d.canPublish ? (
+            <Form method="post" className="mt-4 border-t border-slate-200 pt-3">
+              <p className="text-xs text-slate-600">Deleting removes the library; when selections still use its curves it is archived instead (they keep their frozen copies).</p>
+              <button className="mt-1 rounded-md border border-fail px-3 py-1 text-sm font-semibold text-fail" name="intent" value="delete">
+                Delete library
+              </button>
+            </Form>
+          ) : null}
         </section>
       ) : null}
     </div>

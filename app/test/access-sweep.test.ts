@@ -4,13 +4,30 @@
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq, isNull } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { apiTokens, invitations, memberships, sessions, workspaces } from "@db/schema";
+import { apiTokens, fieldCheckPhotos, fieldChecks, invitations, memberships, projectShares, sessions, workspaces } from "@db/schema";
 import { createApiToken, invite } from "~/lib/accounts.server";
-import { call, makeMember, type TestMember } from "./harness";
+import { call, makeMember, makeWorkspace, type TestMember } from "./harness";
 import * as accountRoute from "~/routes/account";
 import * as workspaceRoute from "~/routes/workspace";
+import * as fieldFormRoute from "~/routes/field.selections.$id";
+import * as fieldCheckRoute from "~/routes/field.checks.$id";
+import * as fieldPhotoRoute from "~/routes/field.checks.$id.photos.$photoId";
+import * as fieldCsvRoute from "~/routes/field.selections.$id.export-csv";
+import * as shareRoute from "~/routes/projects.$id.share";
+import * as fieldHomeRoute from "~/routes/field";
+import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
-type Ctx = { a: TestMember; b: TestMember; bMembershipId: number; bInvitationId: number; bTokenId: number; bSessionId: string };
+type Ctx = {
+  a: TestMember;
+  b: TestMember;
+  bMembershipId: number;
+  bInvitationId: number;
+  bTokenId: number;
+  bSessionId: string;
+  /** B's field-check objects: a project (shared with a third workspace), its selection, a check with a photo. */
+  bField: { projectId: number; selectionId: number; checkId: number; photoId: number; shareId: number; aSlug: string };
+};
+const checksOf = async (selectionId: number) => (await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId))).length;
 type Probe = {
   name: string;
   fn: (ctx: Ctx) => Parameters<typeof call>[0];
@@ -60,6 +77,66 @@ export const SWEEP: Probe[] = [
     opts: (c) => ({ path: "/account", cookie: c.a.cookie, form: { intent: "revoke-device", sessionId: c.bSessionId } }),
     unchanged: async (c) => (await db().select().from(sessions).where(eq(sessions.id, c.bSessionId))).length === 1,
   },
+  {
+    name: "GET /field/selections/:id (B's selection)",
+    fn: () => fieldFormRoute.loader as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
+    unchanged: async () => true,
+  },
+  {
+    name: "GET /field/selections/:id?amend= (B's check, B's selection)",
+    fn: () => fieldFormRoute.loader as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}?amend=${c.bField.checkId}`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
+    unchanged: async () => true,
+  },
+  {
+    name: "POST /field/selections/:id/photos (a check on B's selection)",
+    fn: () => fieldFormRoute.action as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/photos`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01" }) }),
+    unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
+  },
+  {
+    name: "POST /field/selections/:id/photos amends= (B's check)",
+    fn: () => fieldFormRoute.action as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/photos`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01", amends: String(c.bField.checkId) }) }),
+    unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
+  },
+  {
+    name: "GET /field/checks/:id (B's check)",
+    fn: () => fieldCheckRoute.loader as never,
+    opts: (c) => ({ path: `/field/checks/${c.bField.checkId}`, cookie: c.a.cookie, params: { id: String(c.bField.checkId) } }),
+    unchanged: async () => true,
+  },
+  {
+    name: "GET /field/checks/:id/photos/:photoId (B's photo)",
+    fn: () => fieldPhotoRoute.loader as never,
+    opts: (c) => ({ path: `/field/checks/${c.bField.checkId}/photos/${c.bField.photoId}`, cookie: c.a.cookie, params: { id: String(c.bField.checkId), photoId: String(c.bField.photoId) } }),
+    unchanged: async (c) => (await db().select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.id, c.bField.photoId))).length === 1,
+  },
+  {
+    name: "GET /field/selections/:id/export.csv (B's selection)",
+    fn: () => fieldCsvRoute.loader as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/export.csv`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
+    unchanged: async () => true,
+  },
+  {
+    name: "GET /projects/:id/share (B's project)",
+    fn: () => shareRoute.loader as never,
+    opts: (c) => ({ path: `/projects/${c.bField.projectId}/share`, cookie: c.a.cookie, params: { id: String(c.bField.projectId) } }),
+    unchanged: async () => true,
+  },
+  {
+    name: "POST /projects/:id/share intent=share (B's project, to A's workspace)",
+    fn: () => shareRoute.action as never,
+    opts: (c) => ({ path: `/projects/${c.bField.projectId}/share`, cookie: c.a.cookie, params: { id: String(c.bField.projectId) }, form: { intent: "share", workspace: c.bField.aSlug } }),
+    unchanged: async (c) => (await db().select().from(projectShares).where(eq(projectShares.projectId, c.bField.projectId))).length === 1,
+  },
+  {
+    name: "POST /projects/:id/share intent=unshare (B's project and share)",
+    fn: () => shareRoute.action as never,
+    opts: (c) => ({ path: `/projects/${c.bField.projectId}/share`, cookie: c.a.cookie, params: { id: String(c.bField.projectId) }, form: { intent: "unshare", shareId: String(c.bField.shareId) } }),
+    unchanged: async (c) => (await db().select().from(projectShares).where(eq(projectShares.id, c.bField.shareId))).length === 1,
+  },
 ];
 
 let ctx: Ctx;
@@ -71,7 +148,18 @@ beforeAll(async () => {
   const [bi] = await db().select().from(invitations).where(eq(invitations.workspaceId, b.workspaceId));
   const { id: bTokenId } = await createApiToken({ userId: b.userId, workspaceId: b.workspaceId, name: "b", scope: "write" });
   const [bs] = await db().select().from(sessions).where(eq(sessions.userId, b.userId));
-  ctx = { a, b, bMembershipId: bm.id, bInvitationId: bi.id, bTokenId, bSessionId: bs.id };
+  const sel = await storeSelection(b.workspaceId, b.userId, undefined, "B field");
+  const third = await makeWorkspace();
+  const [{ id: shareId }] = await db().insert(projectShares).values({ projectId: sel.projectId, workspaceId: third.id, createdBy: b.userId }).$returningId();
+  const [{ id: checkId }] = await db()
+    .insert(fieldChecks)
+    .values({ selectionId: sel.selectionId, chainId: null, version: 1, workspaceId: b.workspaceId, createdBy: b.userId, readingsJson: "{}", resultJson: "{}", verdict: "pass", grade: "2B", notes: "" })
+    .$returningId();
+  await db().update(fieldChecks).set({ chainId: checkId }).where(eq(fieldChecks.id, checkId));
+  const jpeg = Buffer.from([0xff, 0xd8, 0xff, 0xe0]);
+  const [{ id: photoId }] = await db().insert(fieldCheckPhotos).values({ fieldCheckId: checkId, filename: "b.jpg", contentType: "image/jpeg", sizeBytes: jpeg.length, sha256: "0".repeat(64), content: jpeg }).$returningId();
+  const [aw] = await db().select().from(workspaces).where(eq(workspaces.id, a.workspaceId));
+  ctx = { a, b, bMembershipId: bm.id, bInvitationId: bi.id, bTokenId, bSessionId: bs.id, bField: { projectId: sel.projectId, selectionId: sel.selectionId, checkId, photoId, shareId, aSlug: aw.slug } };
 });
 afterAll(() => closeDb());
 
@@ -89,11 +177,13 @@ describe("access sweep: workspace A cannot reach workspace B", () => {
     const ws = await call(workspaceRoute.loader as never, { path: "/workspace", cookie: ctx.a.cookie });
     const acct = await call(accountRoute.loader as never, { path: "/account", cookie: ctx.a.cookie });
     const [bws] = await db().select().from(workspaces).where(eq(workspaces.id, ctx.b.workspaceId));
-    for (const r of [ws, acct]) {
+    const field = await call(fieldHomeRoute.loader as never, { path: "/field", cookie: ctx.a.cookie });
+    for (const r of [ws, acct, field]) {
       expect(r.status).toBe(200);
       const text = JSON.stringify(r.body);
       expect(text).not.toContain(ctx.b.email);
       expect(text).not.toContain(bws.name);
+      expect(text).not.toContain("B field");
     }
   });
 });

@@ -1,0 +1,104 @@
+// Pieces shared by the field-check pages: the safety caution, the labelled grade table, the
+// verdict badge and the chart of the delivered point against the curve at the measured speed.
+import { DutyChart } from "./chart/DutyChart";
+import type { PumpSeries } from "./chart/types";
+import { TOLERANCE_GRADES } from "~/engine";
+import { VERDICT_TEXT, type Verdict } from "~/lib/fieldcheck-form";
+import type { CheckResult } from "~/lib/fieldchecks.server";
+import { fmtFlow, fmtHead, type UnitSystem } from "./units";
+
+export function FieldCaution() {
+  return (
+    <p className="caution">
+      Pressurised systems, rotating equipment and electrical work are for qualified people. Follow the site's rules, local codes and licensed
+      practice; isolate and lock off before fitting gauges or meters. Results are guidance from your readings, not a certification.
+    </p>
+  );
+}
+
+const pct = (x: number) => `${(x * 100).toFixed(0)} %`;
+
+/** The grades table the verdict thresholds come from, with its source label. */
+export function GradeTable({ highlight }: { highlight?: string }) {
+  const source = TOLERANCE_GRADES[0]?.source ?? "";
+  return (
+    <details className="text-sm">
+      <summary className="cursor-pointer">Tolerance grades (allowed deviation of the delivered point from the curve)</summary>
+      <table className="mt-2 w-full text-left">
+        <caption className="caption-bottom pt-1 text-left text-xs text-slate-600">Source: {source}.</caption>
+        <thead className="text-slate-600">
+          <tr>
+            <th className="py-1">Grade</th>
+            <th>Flow</th>
+            <th>Head</th>
+          </tr>
+        </thead>
+        <tbody>
+          {TOLERANCE_GRADES.map((g) => (
+            <tr key={g.id} className={`border-t border-slate-100 ${g.id === highlight ? "font-semibold" : ""}`}>
+              <td className="py-1">{g.id}</td>
+              <td>
+                −{pct(g.flow[0])} / +{pct(g.flow[1])}
+              </td>
+              <td>
+                −{pct(g.head[0])} / +{pct(g.head[1])}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="mt-1 text-xs text-slate-600">
+        A point passes a grade when some point of the curve at the measured speed lies within both tolerances of it. “At the tolerance limit”: outside the
+        grade as read, inside it within the gauges' and the flow meter's stated accuracy.
+      </p>
+    </details>
+  );
+}
+
+const BADGE: Record<Verdict, string> = {
+  pass: "border-brand-700 text-brand-800 bg-brand-50",
+  marginal: "border-duty text-duty bg-duty-soft",
+  fail: "border-fail text-fail bg-fail-soft",
+  unknown: "border-slate-400 text-slate-700 bg-slate-50",
+};
+
+export function VerdictBadge({ verdict, grade, large }: { verdict: Verdict; grade?: string; large?: boolean }) {
+  return (
+    <span data-verdict={verdict} className={`inline-block rounded-full border px-2 ${large ? "py-1 text-base" : "text-xs"} font-semibold ${BADGE[verdict]}`}>
+      {VERDICT_TEXT[verdict]}
+      {grade && verdict !== "unknown" ? ` · grade ${grade}` : ""}
+    </span>
+  );
+}
+
+/** The delivered point on the curve rescaled to the measured speed, the curve as selected, the design duty and (without a flow meter) the flow band. */
+export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; unitSystem: UnitSystem; compact?: boolean }) {
+  const c = r.chart;
+  const pumps: PumpSeries[] = [
+    { id: "selected", label: c.selectedLabel, colorIndex: 1, head: c.selected, efficiency: c.selectedEff.length >= 2 ? c.selectedEff : undefined, adjusted: true },
+    {
+      id: "measured",
+      label: c.measuredLabel,
+      colorIndex: 0,
+      head: c.measured,
+      efficiency: c.measuredEff.length >= 2 ? c.measuredEff : undefined,
+      operating: r.delivered.flow !== null ? { flow: r.delivered.flow, head: r.delivered.head } : null,
+    },
+  ];
+  if (c.band && c.band.low !== null && c.band.high !== null && c.band.high > c.band.low) {
+    pumps.push({ id: "band", label: "Flow band from gauge accuracy", colorIndex: 3, head: [{ flow: c.band.low, y: r.delivered.head }, { flow: c.band.high, y: r.delivered.head }] });
+  }
+  const delivered = r.delivered.flow !== null ? `${fmtFlow(unitSystem, r.delivered.flow)} at ${fmtHead(unitSystem, r.delivered.head)}` : `head ${fmtHead(unitSystem, r.delivered.head)}, flow not on the curve`;
+  return (
+    <DutyChart
+      unitSystem={unitSystem}
+      title="Delivered duty point against the pump curve"
+      description={`The delivered point (${delivered}) on the pump curve ${r.speed.rescaled ? "rescaled to the measured speed" : "as compared"}, the curve as selected (dashed)${r.duty ? ", and the design duty as a cross" : ""}${pumps.length > 2 ? ", and the inferred flow band" : ""}.`}
+      system={c.system ? { design: c.system } : undefined}
+      pumps={pumps}
+      duty={r.duty}
+      flowMax={c.flowMax}
+      compact={compact}
+    />
+  );
+}

@@ -1,0 +1,54 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.libraries.$id.upload";
+import { requireApi } from "~/lib/guards.server";
+import { analyseStored, getUpload, importUpload, storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { badRequest, problem } from "~/lib/problem.server";
+import { asProblem } from "~/lib/api-errors.server";
+import { IdField } from "~/lib/forms.server";
+
+// POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1").
+// Without import=1: stores the file and returns the validation report (problems named by line and column,
+// the mapping used). With import=1: imports the good curves as a new revision and returns it.
+export async function action({ request, params }: Route.ActionArgs) {
+  const c = await requireApi(request, "library.write");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("Library id must be a number.");
+  if (!(request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
+    return problem({ title: "Unsupported Media Type", status: 415, detail: "Send multipart/form-data with a 'file' field." });
+  }
+  const viewer = { userId: c.userId, workspace: c.workspace, role: c.role };
+  try {
+    const form = await request.formData();
+    const file = form.get("file");
+    if (!(file instanceof File)) return badRequest("The 'file' field is missing.", { errors: [{ field: "file", message: "required" }] });
+    let mapping: unknown = undefined;
+    const raw = form.get("mapping");
+    if (typeof raw === "string" && raw.trim()) {
+      try {
+        mapping = JSON.parse(raw);
+      } catch {
+        return badRequest("The 'mapping' field is not JSON.", { errors: [{ field: "mapping", message: "not JSON" }] });
+      }
+    }
+    const uploadId = await storeUpload(viewer, id.output, file);
+    const { text, lib } = await getUpload(viewer, id.output, uploadId);
+    let analysis;
+    try {
+      analysis = analyseStored(text, lib, mapping);
+    } catch (e) {
+      if (e instanceof v.ValiError) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).map((p: { key: unknown }) => String(p.key)).join(".")}`, message: i.message })) });
+      throw e;
+    }
+    const report = { uploadId, mapping: analysis.mapping, stats: analysis.result.stats, problems: analysis.result.problems };
+    if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
+    const revision = await importUpload(viewer, id.output, uploadId, analysis.mapping, String(form.get("note") ?? "API import"));
+    return Response.json({ report, revision }, { status: 201 });
+  } catch (e) {
+    if (e instanceof UploadRejected) return problem({ title: "Unprocessable Content", status: 422, detail: e.message });
+    return asProblem(e);
+  }
+}
+
+export function loader() {
+  return problem({ title: "Method Not Allowed", status: 405, detail: "Use POST with multipart/form-data." }, { Allow: "POST" });
+}

@@ -1,0 +1,26 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.models.$id";
+import { requireApi } from "~/lib/guards.server";
+import { getModel } from "~/lib/libraries.server";
+import { badRequest } from "~/lib/problem.server";
+import { asProblem } from "~/lib/api-errors.server";
+import { IdField } from "~/lib/forms.server";
+
+// GET /api/v1/models/:id — one model with its curves and points, SI units.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const c = await requireApi(request, "library.read");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("Model id must be a number.");
+  try {
+    const m = await getModel({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output);
+    return Response.json({
+      units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" },
+      model: { id: m.model.id, name: m.model.name, type: m.model.type, size: m.model.nominalSize, notes: m.model.notes },
+      library: m.library,
+      revision: m.revision,
+      curveSets: m.curves.map((x) => ({ id: x.id, speed: x.speed, impellerDiameter: x.impellerDiameter, points: x.points })),
+    });
+  } catch (e) {
+    return asProblem(e);
+  }
+}

@@ -1,0 +1,261 @@
+import * as v from "valibot";
+import { useLoaderData } from "react-router";
+import type { Route } from "./+types/field.checks.$id";
+import { requireMember } from "~/lib/guards.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { IdField } from "~/lib/forms.server";
+import { can } from "~/lib/permissions";
+import { getFieldCheck } from "~/lib/fieldchecks.server";
+import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
+import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+
+// GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
+// The numbers shown are the ones stored when the check was recorded: both sides read the same record.
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Field check ${data?.check.id ?? ""} · Dutymark` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "fieldcheck.read");
+  const c = await getFieldCheck(viewerOf(m), v.parse(IdField, params.id));
+  const url = new URL(request.url);
+  return {
+    check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
+    selection: { id: c.selection.id, title: c.selection.title, projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
+    readings: c.readings,
+    result: c.result,
+    recordedBy: c.recordedBy,
+    recordedIn: c.recordedIn,
+    mayAmend: c.mayAmend && can(m.role, "fieldcheck.write"),
+    photos: c.photos,
+    versions: c.versions,
+    latest: c.latest,
+    justRecorded: url.searchParams.get("recorded") === "1",
+    unitSystem: m.user.unitSystem as UnitSystem,
+  };
+}
+
+const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
+
+function gaugeText(sys: UnitSystem, g: Readings["suction"]) {
+  return `${fmtPressure(sys, g.pressure)} ${g.reference}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
+}
+
+export default function FieldCheckRecord() {
+  const d = useLoaderData<typeof loader>();
+  const r = d.result;
+  const sys = d.unitSystem;
+  const rd = d.readings;
+  const e = r.engine;
+  const band = e.flowBand;
+  const rpm = speedRpm(rd.speed);
+  const pin = inputPowerW(rd.power);
+  return (
+    <article className="mx-auto max-w-3xl space-y-4">
+      <header>
+        <p className="text-sm">
+          <a href="/field">Field checks</a> › <a href={`/field/selections/${d.selection.id}`}>{d.selection.title}</a> ›
+        </p>
+        <h1 className="text-xl font-bold text-brand-900">
+          Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
+        </h1>
+        <p className="text-sm text-slate-700">
+          {d.selection.projectName} · {d.selection.systemName} · recorded {d.check.createdAt.slice(0, 16).replace("T", " ")} UTC by {d.recordedBy} ({d.recordedIn})
+        </p>
+      </header>
+      {d.justRecorded ? (
+        <p role="status" className="panel text-sm">
+          Check recorded. The engineer of the project has been sent a notice.
+        </p>
+      ) : null}
+      {!d.latest ? (
+        <p className="caution">
+          This version was amended later: see{" "}
+          {d.versions
+            .filter((x) => x.version > d.check.version)
+            .map((x) => (
+              <a key={x.id} href={`/field/checks/${x.id}`} className="mr-2">
+                version {x.version}
+              </a>
+            ))}
+        </p>
+      ) : null}
+
+      <section className="panel space-y-2" aria-labelledby="verdict-h">
+        <h2 id="verdict-h" className="font-semibold">
+          Verdict
+        </h2>
+        <p>
+          <VerdictBadge verdict={d.check.verdict} grade={d.check.grade} large />
+        </p>
+        <p className="text-sm">{r.message}.</p>
+        <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+          <dt className="text-slate-600">Delivered flow</dt>
+          <dd className="font-semibold" data-testid="delivered-flow">
+            {e.flow !== null ? fmtFlow(sys, e.flow) : "not on the curve"}
+            <span className="font-normal text-slate-600">{e.flowSource === "measured" ? " (flow meter)" : " (inferred from the curve)"}</span>
+          </dd>
+          <dt className="text-slate-600">Total dynamic head</dt>
+          <dd className="font-semibold" data-testid="delivered-head">
+            {fmtHead(sys, r.delivered.head)}
+          </dd>
+          {band ? (
+            <>
+              <dt className="text-slate-600">Flow band from gauge accuracy</dt>
+              <dd>
+                {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)})
+                {band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width ±{fmtNum(((band.high - band.low) / 2 / e.flow) * 100, 0)} % of the flow: the flatter the curve, the wider the band.</span> : null}
+              </dd>
+            </>
+          ) : null}
+          <dt className="text-slate-600">Design duty (one pump)</dt>
+          <dd>{r.duty ? `${fmtFlow(sys, r.duty.flow)} at ${fmtHead(sys, r.duty.head)}` : "not set"}</dd>
+          <dt className="text-slate-600">From the design duty</dt>
+          <dd>
+            flow {signed(r.deviation.dutyFlow)}, head {signed(r.deviation.dutyHead)}
+          </dd>
+          <dt className="text-slate-600">From the curve at the measured speed</dt>
+          <dd>{e.flowSource === "measured" ? `flow ${signed(r.deviation.curveFlow)}, head ${signed(r.deviation.curveHead)}` : "— (the flow was taken from the curve)"}</dd>
+          <dt className="text-slate-600">Curve head at this flow</dt>
+          <dd>{fmtHead(sys, e.curveHead)}</dd>
+          <dt className="text-slate-600">Speed</dt>
+          <dd>
+            {r.speed.measured !== null ? `${Math.round(r.speed.measured)} rpm measured` : "not entered"}
+            {r.speed.design !== null ? ` · ${Math.round(r.speed.design)} rpm selected` : ""}
+            {r.speed.rated !== null ? ` · curve at ${Math.round(r.speed.rated)} rpm` : ""}
+          </dd>
+          {r.power ? (
+            <>
+              <dt className="text-slate-600">Motor input power</dt>
+              <dd>{fmtPower(sys, r.power.input)}</dd>
+              <dt className="text-slate-600">Hydraulic power ρ·g·Q·H</dt>
+              <dd>{fmtPower(sys, r.power.hydraulic)}</dd>
+              <dt className="text-slate-600">Overall efficiency (wire to water)</dt>
+              <dd>{fmtPct(r.power.overall)}</dd>
+              {r.power.pump !== null ? (
+                <>
+                  <dt className="text-slate-600">Pump efficiency (estimate)</dt>
+                  <dd>
+                    {fmtPct(r.power.pump)} {r.power.curve !== null ? `· curve ${fmtPct(r.power.curve)}` : ""}
+                  </dd>
+                </>
+              ) : r.power.curve !== null ? (
+                <>
+                  <dt className="text-slate-600">Curve efficiency at this flow</dt>
+                  <dd>{fmtPct(r.power.curve)} (enter the motor efficiency to compare)</dd>
+                </>
+              ) : null}
+            </>
+          ) : null}
+        </dl>
+      </section>
+
+      {r.hints.length ? (
+        <section className="panel" aria-labelledby="hints-h">
+          <h2 id="hints-h" className="font-semibold">
+            If the point is off
+          </h2>
+          <p className="text-sm">{r.hints[0]}</p>
+          <ul className="ml-5 mt-1 list-disc text-sm">
+            {r.hints.slice(1).map((h) => (
+              <li key={h}>{h}</li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      <section className="panel">
+        <h2 className="font-semibold">On the curve</h2>
+        <FieldCheckChart r={r} unitSystem={sys} compact />
+      </section>
+
+      {r.warnings.length ? (
+        <section className="panel">
+          <h2 className="font-semibold">Notes on the working</h2>
+          <ul className="ml-5 list-disc text-sm">
+            {r.warnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      <section className="panel">
+        <h2 className="font-semibold">Readings</h2>
+        <dl className="mt-2 grid grid-cols-1 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
+          <dt className="text-slate-600">Suction gauge</dt>
+          <dd>{gaugeText(sys, rd.suction)}</dd>
+          <dt className="text-slate-600">Discharge gauge</dt>
+          <dd>{gaugeText(sys, rd.discharge)}</dd>
+          <dt className="text-slate-600">Velocity heads</dt>
+          <dd>
+            suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}
+          </dd>
+          <dt className="text-slate-600">Flow meter</dt>
+          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtNum(rd.flowAccuracy * 100, 1)} %` : ""}` : "none"}</dd>
+          <dt className="text-slate-600">Speed</dt>
+          <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${fmtNum(rpm, 0)} rpm` : rpm !== null ? `${fmtNum(rpm, 0)} rpm` : "not entered"}</dd>
+          <dt className="text-slate-600">Power</dt>
+          <dd>
+            {rd.power.mode === "electrical"
+              ? `${rd.power.volts} V × ${rd.power.amps} A × PF ${rd.power.powerFactor}, ${rd.power.phases === 3 ? "three-phase (√3·V·I·PF)" : "single-phase (V·I·PF)"} = ${fmtPower(sys, pin)}`
+              : rd.power.mode === "input"
+                ? fmtPower(sys, pin)
+                : "not measured"}
+            {rd.power.mode !== "none" && rd.power.motorEfficiency ? ` · motor efficiency ${fmtPct(rd.power.motorEfficiency, 0)}` : ""}
+          </dd>
+          <dt className="text-slate-600">Fluid</dt>
+          <dd>
+            {r.fluid.name} · ρ {fmtNum(r.fluid.density, 1)} kg/m³
+          </dd>
+          <dt className="text-slate-600">Grade</dt>
+          <dd>
+            {r.grade.id}: flow −{(r.grade.flow[0] * 100).toFixed(0)}/+{(r.grade.flow[1] * 100).toFixed(0)} %, head −{(r.grade.head[0] * 100).toFixed(0)}/+{(r.grade.head[1] * 100).toFixed(0)} % ({r.grade.source})
+          </dd>
+          <dt className="text-slate-600">Notes</dt>
+          <dd className="whitespace-pre-wrap">{d.check.notes || "—"}</dd>
+        </dl>
+        <GradeTable highlight={r.grade.id} />
+      </section>
+
+      {d.photos.length ? (
+        <section className="panel">
+          <h2 className="font-semibold">Photos</h2>
+          <ul className="mt-2 grid grid-cols-2 gap-2 sm:grid-cols-3">
+            {d.photos.map((p) => (
+              <li key={p.id}>
+                <a href={`/field/checks/${d.check.id}/photos/${p.id}`}>
+                  <img src={`/field/checks/${d.check.id}/photos/${p.id}`} alt={p.filename} loading="lazy" className="h-32 w-full rounded object-cover" />
+                  <span className="block truncate text-xs">{p.filename}</span>
+                </a>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      <section className="panel flex flex-wrap items-center gap-2 text-sm">
+        {d.mayAmend && d.latest ? (
+          <a className="btn" href={`/field/selections/${d.selection.id}?amend=${d.check.id}`}>
+            Amend (new version)
+          </a>
+        ) : null}
+        <a className="btn-quiet" href={`/field/selections/${d.selection.id}/export.csv`}>
+          History as CSV
+        </a>
+        {d.versions.length > 1 ? (
+          <span>
+            Versions:{" "}
+            {d.versions.map((x) => (
+              <a key={x.id} href={`/field/checks/${x.id}`} className="mr-2" aria-current={x.id === d.check.id ? "page" : undefined}>
+                v{x.version}
+              </a>
+            ))}
+          </span>
+        ) : null}
+      </section>
+
+      <FieldCaution />
+    </article>
+  );
+}

@@ -1,0 +1,79 @@
+import { useLoaderData } from "react-router";
+import type { Route } from "./+types/field";
+import { requireMember } from "~/lib/guards.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { fieldHome } from "~/lib/fieldchecks.server";
+import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
+
+// GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
+
+export const meta: Route.MetaFunction = () => [{ title: "Field checks · Dutymark" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const m = await requireMember(request, "fieldcheck.read");
+  const h = await fieldHome(viewerOf(m));
+  return { ...h, workspace: m.workspace.name, role: m.role };
+}
+
+export default function FieldHome() {
+  const d = useLoaderData<typeof loader>();
+  const shared = d.selections.filter((s) => !s.own);
+  const own = d.selections.filter((s) => s.own);
+  const list = (items: typeof d.selections) => (
+    <ul className="mt-2 divide-y divide-slate-100">
+      {items.map((s) => (
+        <li key={s.id} className="py-2">
+          <a href={`/field/selections/${s.id}`} className="font-semibold">
+            {s.title}
+          </a>
+          <span className="block text-sm text-slate-600">
+            {s.projectName} · {s.systemName}
+            {s.own ? "" : ` · from ${s.ownerName}`}
+          </span>
+        </li>
+      ))}
+    </ul>
+  );
+  return (
+    <article className="mx-auto max-w-xl space-y-4">
+      <header>
+        <h1 className="text-xl font-bold text-brand-900">Field checks</h1>
+        <p className="text-sm text-slate-700">
+          Check on site that an installed pump delivers its design duty. Pick a selection, enter the gauge readings, get the delivered point and a verdict;
+          the engineer of the project is told by e-mail.
+        </p>
+      </header>
+      <FieldCaution />
+      <section className="panel">
+        <h2 className="font-semibold">Shared with {d.workspace}</h2>
+        {shared.length ? list(shared) : <p className="mt-2 text-sm text-slate-600">No project has been shared with this workspace yet. Ask the engineer to share it with “{d.workspace}”.</p>}
+      </section>
+      {own.length ? (
+        <section className="panel">
+          <h2 className="font-semibold">This workspace's selections</h2>
+          {list(own)}
+        </section>
+      ) : null}
+      <section className="panel">
+        <h2 className="font-semibold">Recent checks</h2>
+        {d.checks.length === 0 ? (
+          <p className="mt-2 text-sm text-slate-600">None yet.</p>
+        ) : (
+          <ul className="mt-2 divide-y divide-slate-100 text-sm">
+            {d.checks.map((c) => (
+              <li key={c.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <a href={`/field/checks/${c.id}`}>
+                  {c.selection} · check {c.id} v{c.version}
+                </a>
+                <span className="text-slate-600">
+                  {c.createdAt.slice(0, 10)} · {c.byName || "—"} ({c.byWorkspace})
+                </span>
+                <VerdictBadge verdict={c.verdict} grade={c.grade} />
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </article>
+  );
+}

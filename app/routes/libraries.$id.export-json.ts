@@ -1,0 +1,19 @@
+import * as v from "valibot";
+import type { Route } from "./+types/libraries.$id.export-json";
+import { requireMember } from "~/lib/guards.server";
+import { getLibrary, libraryCurves } from "~/lib/libraries.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { IdField } from "~/lib/forms.server";
+
+// GET /libraries/:id/export.json — the current revision, SI units (flow m³/s, head m, efficiency 0..1, power W, NPSHr m).
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "library.read");
+  const id = v.parse(IdField, params.id);
+  const viewer = viewerOf(m);
+  const lib = await getLibrary(viewer, id);
+  const curves = await libraryCurves(viewer, id);
+  const body = { format: "dutymark-library/1", units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" }, library: { id: lib.id, name: lib.name, owner: lib.ownerName, description: lib.description }, curveSets: curves };
+  return new Response(JSON.stringify(body, null, 2), {
+    headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-library-${id}.json"` },
+  });
+}

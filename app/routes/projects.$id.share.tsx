@@ -1,0 +1,104 @@
+import * as v from "valibot";
+import { Form, useActionData, useLoaderData } from "react-router";
+import type { Route } from "./+types/projects.$id.share";
+import { requireMember } from "~/lib/guards.server";
+import { viewerOf } from "~/lib/viewer.server";
+import { IdField, invalid, readForm } from "~/lib/forms.server";
+import { listShares, shareProject, unshareProject } from "~/lib/fieldchecks.server";
+
+// GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
+// commissioning contractor) by its exact name or short name; lists and removes shares.
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Share ${data?.project.name ?? "project"} · Dutymark` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "project.write");
+  return listShares(viewerOf(m), v.parse(IdField, params.id));
+}
+
+const ShareForm = v.variant("intent", [
+  v.object({ intent: v.literal("share"), workspace: v.pipe(v.string(), v.trim(), v.minLength(1, "Enter the workspace's exact name or short name."), v.maxLength(140, "That name is too long.")) }),
+  v.object({ intent: v.literal("unshare"), shareId: IdField }),
+]);
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, "project.write");
+  const viewer = viewerOf(m);
+  const projectId = v.parse(IdField, params.id);
+  const r = await readForm(request, ShareForm);
+  if (!r.ok) return invalid(r.errors);
+  if (r.value.intent === "share") {
+    const out = await shareProject(viewer, projectId, r.value.workspace);
+    if (!out.ok) return invalid({ workspace: out.error }, 422);
+    return { message: out.already ? `Already shared with ${out.name}.` : `Shared with ${out.name}. Its members can now record field checks on this project's selections.` };
+  }
+  const removed = await unshareProject(viewer, projectId, r.value.shareId);
+  if (!removed) return invalid({ _form: "No such share on this project." }, 404);
+  return { message: "Share removed. Checks already recorded stay on record." };
+}
+
+export default function ShareProject() {
+  const d = useLoaderData<typeof loader>();
+  const a = useActionData<typeof action>() as { message?: string; errors?: Record<string, string> } | undefined;
+  return (
+    <article className="mx-auto max-w-xl space-y-4">
+      <header>
+        <p className="text-sm">
+          <a href={`/projects/${d.project.id}`}>{d.project.name}</a> ›
+        </p>
+        <h1 className="text-xl font-bold text-brand-900">Share with a contractor</h1>
+        <p className="text-sm text-slate-700">
+          Members of the workspace you share with see this project's selections under Field checks, record checks against them, and see every check recorded
+          on them. They cannot change the project.
+        </p>
+      </header>
+      {a?.message ? (
+        <p role="status" className="panel text-sm">
+          {a.message}
+        </p>
+      ) : null}
+      {a?.errors?._form ? (
+        <p role="alert" className="caution">
+          {a.errors._form}
+        </p>
+      ) : null}
+      <Form method="post" className="panel space-y-2">
+        <input type="hidden" name="intent" value="share" />
+        <label className="block text-sm">
+          <span className="label">Workspace name or short name</span>
+          <input name="workspace" className="field w-full" autoComplete="off" aria-describedby="workspace-help" aria-invalid={a?.errors?.workspace ? true : undefined} />
+        </label>
+        <p id="workspace-help" className="text-xs text-slate-600">
+          Exactly as the other workspace shows it on its Workspace page.
+        </p>
+        {a?.errors?.workspace ? <p className="text-sm text-fail">{a.errors.workspace}</p> : null}
+        <button type="submit" className="btn">
+          Share
+        </button>
+      </Form>
+      <section className="panel">
+        <h2 className="font-semibold">Shared with</h2>
+        {d.shares.length === 0 ? (
+          <p className="mt-2 text-sm text-slate-600">Nobody outside this workspace.</p>
+        ) : (
+          <ul className="mt-2 divide-y divide-slate-100 text-sm">
+            {d.shares.map((s) => (
+              <li key={s.id} className="flex items-center justify-between gap-2 py-2">
+                <span>
+                  {s.workspaceName} <span className="text-slate-500">({s.workspaceSlug})</span> · since {s.createdAt.slice(0, 10)}
+                </span>
+                <Form method="post">
+                  <input type="hidden" name="intent" value="unshare" />
+                  <input type="hidden" name="shareId" value={s.id} />
+                  <button type="submit" className="btn-quiet">
+                    Stop sharing
+                  </button>
+                </Form>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+    </article>
+  );
+}

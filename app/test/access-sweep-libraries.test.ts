@@ -1,0 +1,134 @@
+// Access sweep, pump libraries and projects: every route and API path that takes an id. A member of
+// workspace A (admin: the widest role) reaches nothing of workspace B's private libraries, uploads,
+// models, projects, systems, candidates or selections — 403 or 404, never data, nothing changed.
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { candidates, libraries, pumpModels, selections, systems } from "@db/schema";
+import { createApiToken } from "~/lib/accounts.server";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
+import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
+import { defaultSystemInput, DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
+import { call, makeMember, type TestMember } from "./harness";
+import * as libPage from "~/routes/libraries.$id";
+import * as uploadRoute from "~/routes/libraries.$id.upload";
+import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
+import * as libCsv from "~/routes/libraries.$id.export-csv";
+import * as libJson from "~/routes/libraries.$id.export-json";
+import * as apiCurves from "~/routes/api.v1.libraries.$id.curves";
+import * as apiModels from "~/routes/api.v1.libraries.$id.models";
+import * as apiModel from "~/routes/api.v1.models.$id";
+import * as apiUpload from "~/routes/api.v1.libraries.$id.upload";
+import * as projectPage from "~/routes/projects.$id";
+import * as systemPage from "~/routes/systems.$id";
+import * as searchPage from "~/routes/systems.$id.search";
+import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
+import * as selectionPage from "~/routes/selections.$id";
+import * as selCsv from "~/routes/selections.$id.export-csv";
+import * as selJson from "~/routes/selections.$id.export-json";
+
+type Ctx = { a: TestMember; aToken: string; b: TestMember; lib: number; upload: number; model: number; project: number; system: number; candidate: number; selection: number; marker: string };
+let ctx: Ctx;
+
+beforeAll(async () => {
+  const a = await makeMember("admin");
+  const b = await makeMember("admin");
+  const vb = { userId: b.userId, workspace: { id: b.workspaceId, name: "B", slug: "b", plan: "free" as const }, role: "admin" as const };
+  const marker = `Secret model ${Date.now().toString(36)}`;
+  const lib = await createLibrary(vb, { name: "B private", description: "" });
+  const csv = readFileSync("fixtures/csv/long-si.csv", "utf8").replaceAll("Kestrel KR-3", marker);
+  const upload = await storeUpload(vb, lib, new File([csv], "b.csv", { type: "text/csv" }));
+  const { text, lib: l } = await getUpload(vb, lib, upload);
+  await importUpload(vb, lib, upload, analyseStored(text, l).mapping);
+  const [model] = await db().select().from(pumpModels).where(eq(pumpModels.name, marker));
+  const project = await createProject(vb, { name: marker, site: "", description: "" });
+  const input = { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } };
+  const system = await createSystem(vb, project, marker, input);
+  const [set] = await db().select().from(libraries).where(eq(libraries.id, lib));
+  void set;
+  const { curvesOfRevisions } = await import("~/lib/libraries.server");
+  const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
+  const sets = await curvesOfRevisions([rev.id!]);
+  const added = await addCandidate(vb, system, sets.find((s) => s.model === marker)!.id, DEFAULT_ADJUSTMENT);
+  if (!added.ok) throw new Error(added.reason);
+  const selection = await selectCandidate(vb, added.id, marker, "");
+  const { token } = await createApiToken({ userId: a.userId, workspaceId: a.workspaceId, name: "sweep", scope: "write" });
+  ctx = { a, aToken: token, b, lib, upload, model: model.id, project, system, candidate: added.id, selection, marker };
+});
+afterAll(() => closeDb());
+
+type Fn = Parameters<typeof call>[0];
+const page = (fn: unknown, path: (c: Ctx) => string, params: (c: Ctx) => Record<string, string>, form?: (c: Ctx) => Record<string, string>) => ({ fn: fn as Fn, path, params, form });
+
+const PROBES: [string, ReturnType<typeof page>][] = [
+  ["GET /libraries/:id", page(libPage.loader, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }))],
+  ["POST /libraries/:id (rename, make shared)", page(libPage.action, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }), () => ({ name: "pwned", description: "", visibility: "shared" }))],
+  ["POST /libraries/:id intent=delete", page(libPage.action, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }), () => ({ intent: "delete" }))],
+  ["GET /libraries/:id/uploads/:uploadId", page(uploadPage.loader, (c) => `/libraries/${c.lib}/uploads/${c.upload}`, (c) => ({ id: String(c.lib), uploadId: String(c.upload) }))],
+  ["GET /libraries/:id/export.csv", page(libCsv.loader, (c) => `/libraries/${c.lib}/export.csv`, (c) => ({ id: String(c.lib) }))],
+  ["GET /libraries/:id/export.json", page(libJson.loader, (c) => `/libraries/${c.lib}/export.json`, (c) => ({ id: String(c.lib) }))],
+  ["GET /projects/:id", page(projectPage.loader, (c) => `/projects/${c.project}`, (c) => ({ id: String(c.project) }))],
+  ["POST /projects/:id intent=archive", page(projectPage.action, (c) => `/projects/${c.project}`, (c) => ({ id: String(c.project) }), () => ({ intent: "archive" }))],
+  ["GET /systems/:id", page(systemPage.loader, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }))],
+  ["POST /systems/:id intent=archive", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), () => ({ intent: "archive" }))],
+  ["POST /systems/:id remove B's candidate", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "remove-candidate", candidateId: String(c.candidate) }))],
+  ["POST /systems/:id select B's candidate", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "select", candidateId: String(c.candidate) }))],
+  ["GET /systems/:id/search", page(searchPage.loader, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }))],
+  ["POST /systems/:id/search (add B's curve)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), () => ({ curveSetId: "1" }))],
+  ["GET /selections/:id", page(selectionPage.loader, (c) => `/selections/${c.selection}`, (c) => ({ id: String(c.selection) }))],
+  ["GET /selections/:id/export.csv", page(selCsv.loader, (c) => `/selections/${c.selection}/export.csv`, (c) => ({ id: String(c.selection) }))],
+  ["GET /selections/:id/export.json", page(selJson.loader, (c) => `/selections/${c.selection}/export.json`, (c) => ({ id: String(c.selection) }))],
+];
+
+const API: [string, (c: Ctx) => { fn: Fn; path: string; params: Record<string, string>; method?: string; body?: BodyInit; headers?: Record<string, string> }][] = [
+  ["GET /api/v1/libraries/:id/curves", (c) => ({ fn: apiCurves.loader as Fn, path: `/api/v1/libraries/${c.lib}/curves`, params: { id: String(c.lib) } })],
+  ["GET /api/v1/libraries/:id/models", (c) => ({ fn: apiModels.loader as Fn, path: `/api/v1/libraries/${c.lib}/models`, params: { id: String(c.lib) } })],
+  ["GET /api/v1/models/:id", (c) => ({ fn: apiModel.loader as Fn, path: `/api/v1/models/${c.model}`, params: { id: String(c.model) } })],
+  ["POST /api/v1/systems/:id/preview", (c) => ({ fn: apiPreview.action as Fn, path: `/api/v1/systems/${c.system}/preview`, params: { id: String(c.system) }, method: "POST", body: JSON.stringify({ input: defaultSystemInput() }), headers: { "content-type": "application/json" } })],
+  [
+    "POST /api/v1/libraries/:id/upload",
+    (c) => {
+      const fd = new FormData();
+      fd.append("file", new File(["model,speed,flow,head\nX,2900,0,10\nX,2900,1,9\nX,2900,2,8\n"], "x.csv", { type: "text/csv" }));
+      fd.append("import", "1");
+      return { fn: apiUpload.action as Fn, path: `/api/v1/libraries/${c.lib}/upload`, params: { id: String(c.lib) }, method: "POST", body: fd };
+    },
+  ],
+];
+
+async function bUnchanged(c: Ctx) {
+  const [l] = await db().select().from(libraries).where(eq(libraries.id, c.lib));
+  const [s] = await db().select().from(systems).where(eq(systems.id, c.system));
+  const cand = await db().select().from(candidates).where(eq(candidates.id, c.candidate));
+  const sel = await db().select().from(selections).where(eq(selections.systemId, c.system));
+  return l?.name === "B private" && l.visibility === "private" && !l.archivedAt && !s.archivedAt && cand.length === 1 && sel.length === 1;
+}
+
+describe("access sweep (libraries, projects, API): workspace A cannot reach workspace B", () => {
+  test("control: B itself reads every page probed below (so a 404 for A means refused, not a wrong address)", async () => {
+    for (const [, p] of PROBES.filter(([n]) => n.startsWith("GET"))) {
+      const r = await call(p.fn, { path: p.path(ctx), params: p.params(ctx), cookie: ctx.b.cookie });
+      expect(r.status, p.path(ctx)).toBe(200);
+    }
+  });
+
+  for (const [name, p] of PROBES) {
+    test(name, async () => {
+      const r = await call(p.fn, { path: p.path(ctx), params: p.params(ctx), cookie: ctx.a.cookie, form: p.form?.(ctx) });
+      expect([403, 404]).toContain(r.status);
+      expect(JSON.stringify(r.body ?? "")).not.toContain(ctx.marker);
+      expect(await bUnchanged(ctx)).toBe(true);
+    });
+  }
+  for (const [name, make] of API) {
+    test(`${name} (Bearer token of A)`, async () => {
+      const p = make(ctx);
+      const r = await call(p.fn, { path: p.path, params: p.params, method: p.method, body: p.body, headers: { authorization: `Bearer ${ctx.aToken}`, ...p.headers } });
+      expect([403, 404]).toContain(r.status);
+      expect(r.headers.get("content-type")).toBe("application/problem+json");
+      expect(JSON.stringify(r.body ?? "")).not.toContain(ctx.marker);
+      expect(await bUnchanged(ctx)).toBe(true);
+    });
+  }
+});

@@ -1,0 +1,58 @@
+// A small frozen selection for field-check tests: a straight-line pump curve (easy to work by hand)
+// on the default system, stored as a project / system / selection of a workspace.
+import { db } from "@db/client.server";
+import { projects, selections, systems } from "@db/schema";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/hydraulics";
+import type { FrozenSelection } from "~/lib/projects.server";
+
+/** Points of H = h0 − k·Q (m, m³/s) from Q = 0 to qMax, with a flat 70 % efficiency hump. */
+export function linearPoints(h0 = 40, k = 1000, qMax = 0.03, n = 7) {
+  return Array.from({ length: n }, (_, i) => {
+    const q = (qMax * i) / (n - 1);
+    return { flow: q, head: h0 - k * q, efficiency: i === 0 ? 0 : 0.4 + 0.3 * Math.sin((Math.PI * i) / (n - 1)), power: null, npshr: null };
+  });
+}
+
+export function frozenFixture(opts: { points?: ReturnType<typeof linearPoints>; speed?: number | null; duty?: { flow: number; head: number }; adjustment?: Adjustment; input?: Partial<SystemInput> } = {}): FrozenSelection {
+  const points = opts.points ?? linearPoints();
+  const input: SystemInput = { ...defaultSystemInput(), ...opts.input, duty: opts.duty ?? { flow: 0.012, head: 28 } };
+  const adjustment = opts.adjustment ?? DEFAULT_ADJUSTMENT;
+  const speed = opts.speed === undefined ? 2900 : opts.speed;
+  const set = { points, speed, impellerDiameter: null };
+  return {
+    format: "dutymark-selection/1",
+    frozenAt: new Date().toISOString(),
+    project: { id: 0, name: "Fixture project" },
+    system: { id: 0, name: "Fixture system", input },
+    systemCurve: null,
+    pump: { label: "Fixture pump", model: "FX 40", type: "", size: "", library: {}, curveSetId: 0, speed, impellerDiameter: null, points },
+    adjustment,
+    result: evaluateCandidate(input, set, adjustment),
+    flowMax: 0.03,
+  };
+}
+
+/** Stores a project, system and selection in `workspaceId`, created by `userId`. */
+export async function storeSelection(workspaceId: number, userId: string, frozen: FrozenSelection = frozenFixture(), name = "Fixture") {
+  const [{ id: projectId }] = await db().insert(projects).values({ workspaceId, name: `${name} project`, createdBy: userId }).$returningId();
+  const [{ id: systemId }] = await db().insert(systems).values({ projectId, workspaceId, name: `${name} system`, inputJson: JSON.stringify(frozen.system.input) }).$returningId();
+  const f = { ...frozen, project: { id: projectId, name: `${name} project` }, system: { ...frozen.system, id: systemId, name: `${name} system` } };
+  const [{ id: selectionId }] = await db()
+    .insert(selections)
+    .values({ systemId, projectId, workspaceId, title: `${name} selection`, frozenJson: JSON.stringify(f), createdBy: userId })
+    .$returningId();
+  return { projectId, systemId, selectionId, frozen: f };
+}
+
+/** Form fields (SI display units) for readings that give TDH = head exactly: equal elevations and pipes, suction 0 kPa. */
+export function fieldsForHead(head: number, density: number, extra: Record<string, string> = {}): Record<string, string> {
+  const pd = (head * density * 9.80665) / 1000; // kPa
+  return {
+    pressureUnit: "kPa", sRef: "gauge", dRef: "gauge", sPressure: "0", dPressure: String(pd), sAccuracy: "", dAccuracy: "",
+    elevationUnit: "m", sElevation: "0", dElevation: "0", diameterUnit: "mm", sDiameter: "100", dDiameter: "100",
+    flowUnit: "m3/s", flow: "", flowAccuracy: "", speedMode: "rpm", rpm: "2900", hz: "", baseHz: "", baseRpm: "",
+    powerMode: "none", powerUnit: "kW", power: "", volts: "", amps: "", powerFactor: "", phases: "3", motorEfficiency: "",
+    temperatureUnit: "C", temperature: "20", notes: "", gradeId: "2B",
+    ...extra,
+  };
+}

@@ -1,0 +1,1 @@
+ALTER TABLE `libraries` ADD `archived_at` datetime;
