@@ -234,6 +234,8 @@ async function test() {
   let passed = 0;
   let failedCount = 0;
   let skipped = 0;
+  // The production build first: the fault tests run it as its own process; the browser tests use it too.
+  await mustRun("build", npmBin("react-router"), ["build"], env);
   if (!onlyE2e) {
     const code = await run(npmBin("vitest"), ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${vitestJson}`], env);
     const r = readJson(vitestJson);
@@ -245,7 +247,6 @@ async function test() {
     if (code !== 0) failed = true;
   }
   if (!onlyUnit) {
-    await mustRun("build", npmBin("react-router"), ["build"], env);
     await startService(
       "app",
       process.execPath,
