@@ -224,6 +224,8 @@ async function test() {
   const onlyE2e = process.argv.includes("--e2e");
   const env = await prepare(process.env.DB_NAME_TEST ?? "dutymark_test", { fresh: true, seedDemo: true });
   env.NODE_ENV = "test";
+  // A second, empty database for tests that replace a whole database (backup/restore round trip).
+  env.DATABASE_URL_SCRATCH = await ensureDatabase(`${process.env.DB_NAME_TEST ?? "dutymark_test"}_scratch`, { fresh: true });
   const port = Number(process.env.TEST_PORT ?? 3100);
   const appUrl = `http://127.0.0.1:${port}`;
   Object.assign(env, await startStandIns(env, { smtpPort: 2625, stripePort: 12211, appUrl }), { APP_URL: appUrl });
@@ -303,7 +305,31 @@ async function admin() {
   process.exit(code);
 }
 
-const commands = { admin, start, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
+/** `npm run db:backup [-- FILE]` / `npm run db:restore -- FILE` on the npm start database (or DATABASE_URL). */
+async function dbBackup() {
+  const { backup } = await import("./backup.mjs");
+  const env = await prepare(process.env.DB_NAME ?? "dutymark", { keepDb: true });
+  const stamp = new Date().toISOString().replace(/[:.]/g, "-").slice(0, 19);
+  const file = process.argv[3] ?? path.join(DATA_ROOT, "backups", `dutymark-${stamp}.sql`);
+  const r = await backup(env.DATABASE_URL, file);
+  log(`backup written: ${r.file} (${(r.bytes / 1024).toFixed(0)} KiB)`);
+  process.exit(0);
+}
+
+async function dbRestore() {
+  const { restore } = await import("./backup.mjs");
+  const file = process.argv[3];
+  if (!file) {
+    log("usage: npm run db:restore -- FILE");
+    process.exit(2);
+  }
+  const env = await prepare(process.env.DB_NAME ?? "dutymark", { keepDb: true });
+  const r = await restore(env.DATABASE_URL, file);
+  log(`restored ${r.file} (replaced ${r.droppedTables} tables)`);
+  process.exit(0);
+}
+
+const commands = { admin, start, "db-backup": dbBackup, "db-restore": dbRestore, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
 if (!commands[cmd]) {
   log(`unknown command ${cmd}; one of ${Object.keys(commands).join(", ")}`);
   process.exit(2);

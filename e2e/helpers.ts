@@ -1,4 +1,7 @@
+import { createRequire } from "node:module";
 import { expect, type Page } from "@playwright/test";
+
+const require = createRequire(import.meta.url);
 
 export const DEMO_PASSWORD = "duty-demo-2026";
 
@@ -32,4 +35,16 @@ export async function linkFromMailbox(page: Page, to: string, path: string): Pro
   }
   if (!href) throw new Error(`no ${path} link in the mailbox of ${to}`);
   return href;
+}
+
+/** Runs axe-core (injected from the package, no network) and returns serious and critical violations. */
+export async function axeViolations(page: Page) {
+  const axePath = require.resolve("axe-core/axe.min.js");
+  await page.addScriptTag({ path: axePath });
+  const result = await page.evaluate(async () => {
+    // @ts-expect-error axe is injected above
+    const r = await window.axe.run(document, { resultTypes: ["violations"] });
+    return r.violations.map((v: { id: string; impact: string; help: string; nodes: { target: string[] }[] }) => ({ id: v.id, impact: v.impact, help: v.help, targets: v.nodes.slice(0, 3).map((n) => n.target.join(" ")) }));
+  });
+  return result.filter((v: { impact: string }) => v.impact === "serious" || v.impact === "critical");
 }

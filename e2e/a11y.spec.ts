@@ -1,0 +1,25 @@
+import { expect, test } from "@playwright/test";
+import { axeViolations, signIn } from "./helpers";
+
+// axe-core on the pages the journeys reach: no serious or critical violation.
+const PAGES: { who: string | null; paths: string[] }[] = [
+  { who: null, paths: ["/", "/signin", "/signup", "/forgot", "/api"] },
+  { who: "engineer@kestrel.example", paths: ["/projects", "/projects/1", "/systems/1", "/systems/1/search", "/selections/1", "/libraries", "/account", "/workspace", "/workspace/billing"] },
+  { who: "distributor@harrow-vell.example", paths: ["/libraries", "/libraries/1"] },
+  { who: "contractor@lowmoor.example", paths: ["/field"] },
+];
+
+for (const group of PAGES) {
+  test(`accessibility: ${group.who ?? "visitor"} pages have no serious or critical axe violations`, async ({ page }) => {
+    if (group.who) await signIn(page, group.who);
+    const found: Record<string, unknown> = {};
+    for (const p of group.paths) {
+      const res = await page.goto(p);
+      expect(res?.status(), p).toBeLessThan(400);
+      await page.waitForLoadState("networkidle");
+      const v = await axeViolations(page);
+      if (v.length) found[p] = v;
+    }
+    expect(found).toEqual({});
+  });
+}
