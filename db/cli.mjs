@@ -227,6 +227,8 @@ async function test() {
   // A second, empty database for tests that replace a whole database (backup/restore round trip).
   env.DATABASE_URL_SCRATCH = await ensureDatabase(`${process.env.DB_NAME_TEST ?? "dutymark_test"}_scratch`, { fresh: true });
   const port = Number(process.env.TEST_PORT ?? 3100);
+  // Browser tests reach two app processes on one database through a round-robin relay on `port`.
+  const appPorts = [port + 1, port + 2];
   const appUrl = `http://127.0.0.1:${port}`;
   Object.assign(env, await startStandIns(env, { smtpPort: 2625, stripePort: 12211, appUrl }), { APP_URL: appUrl });
   mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
@@ -249,18 +251,25 @@ async function test() {
     if (code !== 0) failed = true;
   }
   if (!onlyUnit) {
-    await startService(
-      "app",
-      process.execPath,
-      ["app/serve.mjs", "build/server/index.js"],
-      { ...env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1" },
-      `${appUrl}/healthz`,
-    );
+    for (const p of appPorts) {
+      await startService(
+        `app on ${p}`,
+        process.execPath,
+        ["app/serve.mjs", "build/server/index.js"],
+        { ...env, PORT: String(p), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1", ACCESS_LOG: process.env.ACCESS_LOG ?? "0" },
+        `http://127.0.0.1:${p}/healthz`,
+      );
+    }
+    await startService("relay", process.execPath, ["fixtures/proxy/round-robin.mjs", String(port), ...appPorts.map(String)], env, `${appUrl}/healthz`);
     const code = await run(npmBin("playwright"), ["test", "-c", "e2e"], {
       ...env,
       BASE_URL: appUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: pwJson,
     });
+    try {
+      const spread = await (await fetch(`${appUrl}/__relay`)).json();
+      log(`requests per app process: ${JSON.stringify(spread)}`);
+    } catch {}
     const r = readJson(pwJson);
     if (r?.stats) {
       passed += r.stats.expected ?? 0;
