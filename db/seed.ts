@@ -11,6 +11,7 @@ import { addCandidate, createProject, createSystem, listProjects, searchForSyste
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../app/lib/hydraulics";
 import { innerDiameter, material as materialOf } from "../app/engine";
 import { demoLibraries } from "../fixtures/demo";
+import { seedFieldChecks } from "./seed-fieldchecks";
 
 export const DEMO_PASSWORD = "duty-demo-2026";
 
@@ -178,6 +179,7 @@ if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.a
     .then(async ({ created }) => {
       const libs = await seedLibraries();
       const projects = await seedProjects();
+      await seedFieldChecks();
       process.stderr.write(
         `[db] demo data: ${created || libs || projects ? `${created} accounts rows, ${libs} libraries, ${projects} projects created` : "already present"}\n`,
       );

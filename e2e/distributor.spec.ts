@@ -20,7 +20,7 @@ test("As a distributor I drop a messy vendor CSV, see every bad row named, impor
   await page.getByRole("button", { name: /^Import \d+ curves$/ }).click();
   await expect(page).toHaveURL(/\/libraries\/\d+\?imported=1$/);
   await expect(page.locator("svg[role=img]").first()).toBeVisible();
-  await expect(page.getByRole("navigation", { name: "Models" })).toBeVisible();
+  await expect(page.getByRole("table", { name: "Models" })).toBeVisible();
 
   await page.getByLabel(/Shared — published/).check();
   await page.getByRole("button", { name: "Save" }).click();

@@ -57,7 +57,7 @@ export function GradeTable({ highlight }: { highlight?: string }) {
 
 const BADGE: Record<Verdict, string> = {
   pass: "border-brand-700 text-brand-800 bg-brand-50",
-  marginal: "border-duty text-duty bg-duty-soft",
+  marginal: "border-duty text-duty-ink bg-duty-soft",
   fail: "border-fail text-fail bg-fail-soft",
   unknown: "border-slate-400 text-slate-700 bg-slate-50",
 };

@@ -81,7 +81,7 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
               <td className="py-1">
                 {r.name} <span className="text-xs text-slate-500">({r.side})</span>
                 {r.warnings.map((w, j) => (
-                  <div key={j} className="text-xs text-duty">
+                  <div key={j} className="text-xs text-duty-ink">
                     ▲ {w}
                   </div>
                 ))}
@@ -109,7 +109,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Adjustment", (c) => adjustmentText(c).replace(/^ \(|\)$/g, "") || "as published"],
     ["Operating flow", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
-    ["Outcome", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result?.status === "ok" ? "meets the system" : <span className="text-duty">{c.result?.message}</span>)],
+    ["Outcome", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result?.status === "ok" ? "meets the system" : <span className="text-duty-ink">{c.result?.message}</span>)],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? `${fmtNum(c.result.figures.bepRatio * 100, 0)} % of BEP flow${c.result.figures.inPor === false ? " — outside POR" : ""}` : "—")],
@@ -153,7 +153,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
                 Notes
               </th>
               {view.candidates.map((c) => (
-                <td key={c.id} className="px-2 py-1 text-xs text-duty">
+                <td key={c.id} className="px-2 py-1 text-xs text-duty-ink">
                   {c.result?.ratioNote ? <div>Ratio {c.result.ratioNote}.</div> : null}
                   {c.result?.warnings.map((w, j) => (
                     <div key={j}>▲ {w}</div>

@@ -87,7 +87,7 @@ export default function Account() {
           {d.user.emailVerified ? (
             <span className="text-brand-700">address confirmed</span>
           ) : (
-            <span className="text-duty">address not confirmed yet</span>
+            <span className="text-duty-ink">address not confirmed yet</span>
           )}
         </p>
         {!d.user.emailVerified ? (

@@ -189,7 +189,7 @@ const ACCOUNT_ENDPOINTS: [string, string, string][] = [
 ];
 
 function Code({ children }: { children: string }) {
-  return <pre className="mt-1 overflow-x-auto rounded-md bg-slate-900 p-3 text-xs leading-relaxed text-slate-100">{children}</pre>;
+  return <pre tabIndex={0} className="mt-1 overflow-x-auto rounded-md bg-slate-900 p-3 text-xs leading-relaxed text-slate-100">{children}</pre>;
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {

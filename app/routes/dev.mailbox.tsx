@@ -280,7 +280,7 @@ export default function DevMailbox({ loaderData: data, actionData: done }: Route
                       {r.sentAt ? (
                         <span className="text-pass">sent {utc(r.sentAt)}</span>
                       ) : (
-                        <span className="text-duty">
+                        <span className="text-duty-ink">
                           waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}
                           {r.lastError ? <span className="block text-xs text-slate-600">{r.lastError}</span> : null}
                         </span>

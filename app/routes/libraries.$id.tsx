@@ -197,7 +197,7 @@ export default function LibraryPage() {
                             <a href={`?${new URLSearchParams({ ...Object.fromEntries(Object.entries(d.filters).filter(([, x]) => x)), model: String(mm.id) })}`} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
                               {mm.name}
                             </a>
-                            <div className="text-xs text-slate-500">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
+                            <div className="text-xs text-slate-600">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
                           </td>
                           <td>{mm.curveCount}</td>
                           <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>

@@ -200,7 +200,7 @@ export default function UploadPreview() {
                       ) : (
                         <span className="text-slate-400">—</span>
                       )}
-                      {c.unitSource === "default" ? <span className="ml-1 text-xs text-duty">assumed</span> : null}
+                      {c.unitSource === "default" ? <span className="ml-1 text-xs text-duty-ink">assumed</span> : null}
                     </td>
                     <td className="text-xs">{c.block ? blockLabel(c.block) : ""}</td>
                   </tr>
@@ -245,7 +245,7 @@ export default function UploadPreview() {
                     <tr key={i} className="border-t border-slate-100">
                       <td className="py-0.5">{p.row}</td>
                       <td>{p.column ?? "—"}</td>
-                      <td className={p.severity === "error" ? "text-fail" : "text-duty"}>
+                      <td className={p.severity === "error" ? "text-fail" : "text-duty-ink"}>
                         {p.severity === "error" ? "✖ " : "▲ "}
                         {p.reason}
                       </td>

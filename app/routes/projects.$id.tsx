@@ -147,7 +147,10 @@ export default function ProjectPage() {
               <button className="btn">Save</button>
             </div>
           </Form>
-          <div className="flex gap-2">
+          <div className="flex flex-wrap gap-2">
+            <a className="btn-quiet" href={`/projects/${d.project.id}/share`}>
+              Share with a contractor
+            </a>
             <Form method="post">
               <button className="btn-quiet" name="intent" value="copy">
                 Copy project

@@ -155,7 +155,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                   <td>{fmtPct(r.efficiency)}</td>
                   <td>
                     {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
-                    {r.inPor === false ? <span className="text-duty"> outside POR</span> : null}
+                    {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
                   </td>
                   <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
                   <td>{fmtPower(sys, r.shaftPower)}</td>

@@ -300,7 +300,7 @@ export default function SystemPage() {
             {view.systemError ? <FormError error={`The system cannot be computed: ${view.systemError}`} /> : null}
             <WorkbenchChart view={view} unitSystem={d.unitSystem} duty={draftInput.duty} title={`${d.name}: head against flow`} />
             {view.evaluation?.warnings.length ? (
-              <ul className="text-xs text-duty">
+              <ul className="text-xs text-duty-ink">
                 {view.evaluation.warnings.map((w, i) => (
                   <li key={i}>▲ {w}</li>
                 ))}
