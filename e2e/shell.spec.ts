@@ -33,3 +33,16 @@ test("/healthz reports the database", async ({ request }) => {
   expect(body).toMatchObject({ status: "ok", db: "ok" });
   expect(typeof body.version).toBe("string");
 });
+
+test("every response carries our security headers", async ({ request }) => {
+  for (const path of ["/", "/signin", "/healthz", "/api/v1/me", "/no-such-place"]) {
+    const res = await request.get(path);
+    const h = res.headers();
+    expect(h["content-security-policy"], path).toContain("frame-ancestors 'none'");
+    expect(h["content-security-policy"], path).toContain("default-src 'self'");
+    expect(h["x-content-type-options"], path).toBe("nosniff");
+    expect(h["referrer-policy"], path).toBe("strict-origin-when-cross-origin");
+    expect(h["x-frame-options"], path).toBe("DENY");
+    expect(h["x-powered-by"], path).toBeUndefined();
+  }
+});

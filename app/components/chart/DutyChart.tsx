@@ -832,9 +832,9 @@ function MarkSwatch({ kind }: { kind: "duty" | "operating" | "bep" | "por" }) {
   );
 }
 
-function opSummary(p: DisplayPump, model: ChartModel): string {
+function opSummary(p: DisplayPump, model: ChartModel): string | null {
   const op = p.operating;
-  if (!op) return "no operating point on the system curve";
+  if (!op) return model.system ? "no operating point on the system curve" : null;
   const u = model.units;
   const parts = [`${formatValue(op.flow)} ${u.flow.label} at ${formatValue(op.head)} ${u.head.label}`];
   if (op.efficiency !== null) parts.push(`η ${formatValue(op.efficiency)} %`);
@@ -888,7 +888,7 @@ function Legend({
                   </span>
                   <span className="font-semibold">{p.label}</span>
                   {p.adjusted && <span className="text-slate-500">(adjusted, dashed)</span>}
-                  <span className="text-slate-600 tabular-nums">— {opSummary(p, model)}</span>
+                  {opSummary(p, model) ? <span className="text-slate-600 tabular-nums">— {opSummary(p, model)}</span> : null}
                 </button>
               </li>
             );
