@@ -82,6 +82,7 @@ export async function requireApi(request: Request, permission: Permission): Prom
         id: apiTokens.id,
         userId: apiTokens.userId,
         scope: apiTokens.scope,
+        lastUsedAt: apiTokens.lastUsedAt,
         role: memberships.role,
         ws: { id: workspaces.id, name: workspaces.name, slug: workspaces.slug, plan: workspaces.plan },
       })
@@ -90,7 +91,10 @@ export async function requireApi(request: Request, permission: Permission): Prom
       .innerJoin(workspaces, eq(workspaces.id, apiTokens.workspaceId))
       .where(and(eq(apiTokens.tokenHash, hashSecret(m[1])), isNull(apiTokens.revokedAt)));
     if (!row) throw unauthorized("Unknown or revoked API token.");
-    await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
+    // "Last used" to the minute: one write per token per minute, not one per request.
+    if (!row.lastUsedAt || Date.now() - row.lastUsedAt.getTime() > 60_000) {
+      await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
+    }
     caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope };
   } else {
     const auth = await getAuth(request);

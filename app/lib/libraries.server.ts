@@ -332,8 +332,34 @@ export async function libraryCurves(viewer: Viewer, libraryId: number, revisionI
   return curvesOfRevisions([rev]);
 }
 
+/**
+ * Revisions never change once written, so each app process may keep the curves of recently used
+ * revisions (a cache of immutable data: any other process rebuilds the same from the database).
+ */
+const REVISION_CACHE_LIMIT = 24;
+const revisionCache = new Map<number, Promise<LibraryCurveSet[]>>();
+
+async function cachedRevision(revisionId: number): Promise<LibraryCurveSet[]> {
+  let p = revisionCache.get(revisionId);
+  if (p) {
+    revisionCache.delete(revisionId); // refresh its place (least recently used goes first)
+    revisionCache.set(revisionId, p);
+    return p;
+  }
+  p = loadCurves([revisionId]);
+  p.catch(() => revisionCache.delete(revisionId));
+  revisionCache.set(revisionId, p);
+  while (revisionCache.size > REVISION_CACHE_LIMIT) revisionCache.delete(revisionCache.keys().next().value!);
+  return p;
+}
+
 export async function curvesOfRevisions(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
   if (revisionIds.length === 0) return [];
+  if (!curveSetIds) return (await Promise.all([...new Set(revisionIds)].map(cachedRevision))).flat();
+  return loadCurves(revisionIds, curveSetIds);
+}
+
+async function loadCurves(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
   const sets = await db()
     .select({ set: curveSets, model: pumpModels })
     .from(curveSets)
