@@ -16,6 +16,7 @@ import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, Upl
 import { MappingSchema } from "./import";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "./guards.server";
+import { prng } from "../../fixtures/prng";
 
 afterAll(() => closeDb());
 
@@ -26,16 +27,6 @@ beforeAll(async () => {
   viewer = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: m.role };
 });
 
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 type Counts = { uploads: number; revisions: number; models: number; sets: number; points: number };
 

@@ -1,17 +1,8 @@
 // Synthetic curve sets for search tests and the bench (deterministic; made up, not vendor data).
 import type { CurveSet, PumpPoint } from "../index.ts";
+import { prng as rng } from "../../../fixtures/prng";
+export { rng };
 
-/** Small deterministic PRNG (mulberry32). */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** One curve: shutoff h0 (m), runout qr (m³/s), BEP at a fraction of runout, peak efficiency. */
 export function makeCurve(h0: number, qr: number, etaMax: number, bepFrac = 0.6, n = 8): PumpPoint[] {

@@ -8,23 +8,13 @@ import * as v from "valibot";
 import { generateDemo } from "../../../fixtures/demo/generate";
 import { analyseCsv, CurveSetSchema, type AnalyseResult } from "./index";
 import type { ProblemCode } from "./types";
+import { prng } from "../../../fixtures/prng";
 
 const CODES: ProblemCode[] = [
   "not-a-number", "negative", "zero", "missing-value", "missing-model", "flow-not-increasing", "head-rising", "efficiency-over-100",
   "too-few-points", "duplicate-curve", "duplicate-flow", "no-speed", "no-point-values", "extra-cells", "csv-syntax", "mapping", "header-changed",
 ]; // source: types.ts ProblemCode (hand-copied so a new code is noticed here)
 
-/** mulberry32, seeded (same generator as fixtures/csv/make-big.ts). */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const demo = generateDemo();
 const file = (variant: string, d = 0) => demo[d].files.find((f) => f.variant === variant)!.text;
