@@ -1,0 +1,36 @@
+import { expect, test } from "@playwright/test";
+import { signIn } from "./helpers";
+
+// Every route with an action refuses a cross-site POST carrying the signed-in user's cookie:
+// our middleware answers 403 (data requests and resource routes); React Router's own check answers
+// 400 for document POSTs. The public calculators (no cookies) and the Stripe webhook (signature)
+// are the only exemptions (app/lib/csrf.server.ts).
+const UI_ACTIONS = [
+  "/signup", "/signin", "/signout", "/verify", "/forgot", "/reset", "/account", "/workspace", "/workspace/new",
+  "/workspace/billing", "/invite/abc", "/dev/mailbox", "/libraries", "/libraries/1", "/libraries/1/uploads/1",
+  "/projects", "/projects/1", "/projects/1/share", "/systems/1", "/systems/1/search",
+];
+const RESOURCE_ACTIONS = ["/libraries/1/upload", "/field/selections/1/photos", "/api/v1/systems/1/preview", "/api/v1/libraries/1/upload"];
+
+test("every action refuses a cross-site POST (foreign Origin, or none at all)", async ({ page }) => {
+  await signIn(page, "admin@kestrel.example");
+  const refused: string[] = [];
+  const accepted: string[] = [];
+  const post = async (path: string, headers: Record<string, string>) => {
+    const res = await page.request.post(path, { form: { intent: "rename", name: "x" }, headers, maxRedirects: 0 });
+    (res.status() === 403 || res.status() === 400 ? refused : accepted).push(`${path} ${JSON.stringify(headers)} → ${res.status()}`);
+  };
+  for (const p of UI_ACTIONS) {
+    await post(`${p}.data`, { Origin: "http://evil.example" });
+    await post(`${p}.data`, {});
+    await post(p, { Origin: "http://evil.example" });
+  }
+  for (const p of RESOURCE_ACTIONS) {
+    await post(p, { Origin: "http://evil.example" });
+    await post(p, {});
+  }
+  expect(accepted).toEqual([]);
+  expect(refused.length).toBe(UI_ACTIONS.length * 3 + RESOURCE_ACTIONS.length * 2);
+  await page.goto("/workspace");
+  await expect(page.getByRole("heading", { name: "Kestrel Building Services" })).toBeVisible();
+});
