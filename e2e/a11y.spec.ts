@@ -6,7 +6,7 @@ const PAGES: { who: string | null; paths: string[] }[] = [
   { who: null, paths: ["/", "/signin", "/signup", "/forgot", "/api"] },
   { who: "engineer@kestrel.example", paths: ["/projects", "/projects/1", "/systems/1", "/systems/1/search", "/selections/1", "/libraries", "/account", "/workspace", "/workspace/billing"] },
   { who: "distributor@harrow-vell.example", paths: ["/libraries", "/libraries/1"] },
-  { who: "contractor@lowmoor.example", paths: ["/field"] },
+  { who: "contractor@lowmoor.example", paths: ["/field", "/field/selections/1", "/field/checks/1"] },
 ];
 
 for (const group of PAGES) {

@@ -68,3 +68,31 @@ test("A wrong password gets a plain message, not an error page", async ({ page }
   await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.getByText("That e-mail and password do not match an account.")).toBeVisible();
 });
+
+test("As someone who forgot a password I ask for a reset link, follow it from the mailbox, choose a new password once, and sign in with it", async ({ page }) => {
+  const email = uniqueEmail("forgetful");
+  await page.goto("/signup");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Your name").fill("Fen Forgetful");
+  await page.getByLabel("Password").fill("the first password");
+  await page.getByLabel("Workspace name").fill("Fen Works");
+  await page.getByRole("button", { name: "Create account" }).click();
+  await signOut(page);
+
+  await page.goto("/forgot");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByRole("button", { name: "Send me a reset link" }).click();
+  await expect(page.getByText("If that address has an account")).toBeVisible();
+  const link = await linkFromMailbox(page, email, "/reset");
+  await page.goto(link);
+  await page.getByLabel("New password").fill("the second password");
+  await page.getByRole("button", { name: "Save the new password" }).click();
+  await expect(page.getByText("Your password was changed")).toBeVisible();
+  await signIn(page, email, "the second password");
+  await signOut(page);
+  // The link works once.
+  await page.goto(link);
+  await page.getByLabel("New password").fill("a third password!");
+  await page.getByRole("button", { name: "Save the new password" }).click();
+  await expect(page.getByText("expired or was already used")).toBeVisible();
+});

@@ -34,3 +34,18 @@ test("every action refuses a cross-site POST (foreign Origin, or none at all)", 
   await page.goto("/workspace");
   await expect(page.getByRole("heading", { name: "Kestrel Building Services" })).toBeVisible();
 });
+
+test("uploads above the limit are refused before anything reads them", async ({ page }) => {
+  await signIn(page, "distributor@harrow-vell.example");
+  const big = Buffer.alloc(26 * 1024 * 1024, 0x41);
+  const res = await page.request.post("/libraries/1/upload", {
+    multipart: { file: { name: "huge.csv", mimeType: "text/csv", buffer: big } },
+    headers: { Origin: new URL(page.url()).origin },
+  });
+  expect(res.status()).toBe(413);
+  const small = await page.request.post("/workspace.data", {
+    form: { intent: "rename", name: "x".repeat(2 * 1024 * 1024) },
+    headers: { Origin: new URL(page.url()).origin },
+  });
+  expect(small.status()).toBe(413);
+});

@@ -46,7 +46,7 @@ export default function Libraries() {
         <h2 className="text-lg font-semibold">Shared by distributors</h2>
         {d.workspace.plan !== "network" && shared.some((l) => l.access === "locked") ? (
           <p className="caution mt-2">
-            Shared libraries open with the Network plan. Your workspace is on the free plan: you can see what is offered, not the curves.{" "}
+            Shared libraries open with the Network plan. Your workspace is on the Starter plan: you can see what is offered, not the curves.{" "}
             <a href="/workspace/billing">See plans</a>
           </p>
         ) : null}
