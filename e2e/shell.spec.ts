@@ -46,3 +46,17 @@ test("every response carries our security headers", async ({ request }) => {
     expect(h["x-powered-by"], path).toBeUndefined();
   }
 });
+
+test("the public calculator answers anonymously through the app server, with our headers (worked example: V ≈ 3.18 m/s)", async ({ request }) => {
+  // Source: common practice, worked example (0.1 m³/s, 200 mm, ν = 1.12e-6 m²/s).
+  const res = await request.post("/api/v1/calc/pipe-loss", {
+    data: { flow_m3s: 0.1, diameter_m: 0.2, length_m: 100, roughness_m: 0.00026, kinematic_viscosity_m2s: 1.12e-6 },
+  });
+  expect(res.status()).toBe(200);
+  expect(res.headers()["x-content-type-options"]).toBe("nosniff");
+  const body = await res.json();
+  expect(body.velocity_ms).toBeCloseTo(3.18, 2);
+  const bad = await request.post("/api/v1/calc/pipe-loss", { data: { flow_m3s: -1 } });
+  expect(bad.status()).toBe(400);
+  expect(bad.headers()["content-type"]).toBe("application/problem+json");
+});
