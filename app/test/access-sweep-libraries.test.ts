@@ -5,7 +5,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { candidates, libraries, pumpModels, selections, systems } from "@db/schema";
+import { candidates, libraries, pumpModels, selections, systems, uploads } from "@db/schema";
 import { createApiToken } from "~/lib/accounts.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
@@ -65,6 +65,8 @@ const PROBES: [string, ReturnType<typeof page>][] = [
   ["GET /libraries/:id", page(libPage.loader, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }))],
   ["POST /libraries/:id (rename, make shared)", page(libPage.action, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }), () => ({ name: "pwned", description: "", visibility: "shared" }))],
   ["POST /libraries/:id intent=delete", page(libPage.action, (c) => `/libraries/${c.lib}`, (c) => ({ id: String(c.lib) }), () => ({ intent: "delete" }))],
+  ["POST /libraries/:id/uploads/:uploadId intent=import (B's upload)", page(uploadPage.action, (c) => `/libraries/${c.lib}/uploads/${c.upload}`, (c) => ({ id: String(c.lib), uploadId: String(c.upload) }), () => ({ intent: "import", base: "{}" }))],
+  ["POST /systems/:id intent=adjust (B's candidate)", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "adjust", candidateId: String(c.candidate), method: "speed", arrangement: "single", dutyPumps: "1", standbyPumps: "0", serviceFactor: "1" }))],
   ["GET /libraries/:id/uploads/:uploadId", page(uploadPage.loader, (c) => `/libraries/${c.lib}/uploads/${c.upload}`, (c) => ({ id: String(c.lib), uploadId: String(c.upload) }))],
   ["GET /libraries/:id/export.csv", page(libCsv.loader, (c) => `/libraries/${c.lib}/export.csv`, (c) => ({ id: String(c.lib) }))],
   ["GET /libraries/:id/export.json", page(libJson.loader, (c) => `/libraries/${c.lib}/export.json`, (c) => ({ id: String(c.lib) }))],
@@ -121,6 +123,13 @@ describe("access sweep (libraries, projects, API): workspace A cannot reach work
       expect(await bUnchanged(ctx)).toBe(true);
     });
   }
+  test("POST /libraries/:id/upload (a file into B's library)", async () => {
+    const fd = new FormData();
+    fd.append("file", new File(["model,speed,flow,head\nX,2900,0,10\nX,2900,1,9\nX,2900,2,8\n"], "x.csv", { type: "text/csv" }));
+    const r = await call(uploadRoute.action as unknown as Fn, { path: `/libraries/${ctx.lib}/upload`, params: { id: String(ctx.lib) }, method: "POST", body: fd, cookie: ctx.a.cookie, headers: { accept: "application/json" } });
+    expect([403, 404]).toContain(r.status);
+    expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1); // only B's own upload
+  });
   for (const [name, make] of API) {
     test(`${name} (Bearer token of A)`, async () => {
       const p = make(ctx);
