@@ -86,7 +86,9 @@ export async function seedLibraries(): Promise<number> {
     const demo = libs.find((l) => l.distributor === p.from);
     if (!demo) continue;
     const name = p.name ?? demo.library;
-    const v = await viewerFor(p.slug, "admin", (await db().select({ id: users.id }).from(users).limit(1))[0]?.id ?? "seed");
+    // Created by the workspace's demo member when it has one (distributor, engineer), else by nobody.
+    const member = await db().select({ id: memberships.userId }).from(memberships).innerJoin(workspaces, eq(workspaces.id, memberships.workspaceId)).where(eq(workspaces.slug, p.slug)).limit(1);
+    const v = await viewerFor(p.slug, "admin", member[0]?.id ?? "");
     const existing = await db().select().from(libraries).where(eq(libraries.workspaceId, v.workspace.id));
     if (existing.some((l) => l.name === name)) continue;
     const id = await createLibrary(v, { name, description: p.description ?? demo.description });

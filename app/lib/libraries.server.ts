@@ -94,7 +94,7 @@ export async function getOwnLibraryForWrite(viewer: Viewer, libraryId: number) {
 export async function createLibrary(viewer: Viewer, input: { name: string; description: string }) {
   const [{ id }] = await db()
     .insert(libraries)
-    .values({ workspaceId: viewer.workspace.id, name: input.name, description: input.description, createdBy: viewer.userId })
+    .values({ workspaceId: viewer.workspace.id, name: input.name, description: input.description, createdBy: viewer.userId || null })
     .$returningId();
   return id;
 }
@@ -142,7 +142,7 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
   const sha256 = createHash("sha256").update(bytes).digest("hex");
   const [{ id }] = await db()
     .insert(uploads)
-    .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId })
+    .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
     .$returningId();
   return id;
 }
@@ -236,7 +236,7 @@ export async function importUpload(
         curveCount: good.length,
         pointCount,
         skippedCount: skipped,
-        createdBy: viewer.userId,
+        createdBy: viewer.userId || null,
       })
       .$returningId();
     // Models, then curve sets, as multi-row INSERTs; their ids are read back by revision (no

@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData, useSearchParams } from "react-router";
+import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects";
 import { requireMember } from "~/lib/guards.server";
 import { createProject, listProjects } from "~/lib/projects.server";
@@ -34,8 +34,6 @@ export default function Projects() {
   const d = useLoaderData<typeof loader>();
   const a = useActionData<typeof action>();
   const errors = (a?.errors ?? {}) as Record<string, string>;
-  const [params] = useSearchParams();
-  void params;
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-baseline justify-between gap-2">

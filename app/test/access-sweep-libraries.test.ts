@@ -45,8 +45,6 @@ beforeAll(async () => {
   const project = await createProject(vb, { name: marker, site: "", description: "" });
   const input = { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } };
   const system = await createSystem(vb, project, marker, input);
-  const [set] = await db().select().from(libraries).where(eq(libraries.id, lib));
-  void set;
   const { curvesOfRevisions } = await import("~/lib/libraries.server");
   const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
   const sets = await curvesOfRevisions([rev.id!]);
