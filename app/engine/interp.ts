@@ -82,7 +82,20 @@ export function evalCubic(c: MonotoneCubic, t: number): number | null {
   const n = x.length;
   if (!(t >= x[0] && t <= x[n - 1])) return null;
   if (n === 1) return c.y[0];
-  let lo = 0, hi = n - 1;
+  return hermiteIn(x, c.y, c.m, 0, n - 1, t);
+}
+
+/**
+ * Cubic Hermite value at t between knots lo and hi of (x, y, m) arrays, with x[lo] ≤ t ≤ x[hi] and
+ * lo < hi (bisection finds the interval). Shared by evalCubic and the search's packed columns.
+ * @param x knots (any unit)
+ * @param y values at the knots (any unit)
+ * @param m tangents at the knots (unit of y per unit of x)
+ * @param lo first knot index (count, dimensionless)
+ * @param hi last knot index (count, dimensionless)
+ * @param t abscissa (unit of the knots)
+ */
+export function hermiteIn(x: ArrayLike<number>, y: ArrayLike<number>, m: ArrayLike<number>, lo: number, hi: number, t: number): number {
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
     if (x[mid] <= t) lo = mid; else hi = mid;
@@ -90,5 +103,5 @@ export function evalCubic(c: MonotoneCubic, t: number): number | null {
   const h = x[hi] - x[lo];
   const s = (t - x[lo]) / h;
   const s2 = s * s, s3 = s2 * s;
-  return (2 * s3 - 3 * s2 + 1) * c.y[lo] + (s3 - 2 * s2 + s) * h * c.m[lo] + (-2 * s3 + 3 * s2) * c.y[hi] + (s3 - s2) * h * c.m[hi];
+  return (2 * s3 - 3 * s2 + 1) * y[lo] + (s3 - 2 * s2 + s) * h * m[lo] + (-2 * s3 + 3 * s2) * y[hi] + (s3 - s2) * h * m[hi];
 }

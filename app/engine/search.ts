@@ -14,7 +14,7 @@
  *    gets a reason stating its figures and how it compares with the top candidate.
  */
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { evalCubic, fritschCarlsonTangents, monotoneCubic, type MonotoneCubic } from "./interp.ts";
+import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
 import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
@@ -119,14 +119,7 @@ function evalPacked(p: Packed, i: number, t: number): number | null {
   const x = p.x;
   if (!(t >= x[lo] && t <= x[hi])) return null;
   if (hi === lo) return p.y[lo];
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (x[mid] <= t) lo = mid; else hi = mid;
-  }
-  const h = x[hi] - x[lo];
-  const s = (t - x[lo]) / h;
-  const s2 = s * s, s3 = s2 * s;
-  return (2 * s3 - 3 * s2 + 1) * p.y[lo] + (s3 - 2 * s2 + s) * h * p.m[lo] + (-2 * s3 + 3 * s2) * p.y[hi] + (s3 - s2) * h * p.m[hi];
+  return hermiteIn(x, p.y, p.m, lo, hi, t);
 }
 
 /** Efficiency cubic from the power column when the curve gives no efficiency (η = ρ·g₀·Q·H/P at its points). */

@@ -24,10 +24,9 @@ import {
   withinGrade,
   type FieldCheckResult,
   type PumpCurve,
-  type PumpPoint,
   type ToleranceGrade,
 } from "~/engine";
-import { fluidOf } from "./hydraulics";
+import { fluidOf, toPumpPoints } from "./hydraulics";
 import { inputPowerW, MAX_PHOTO_BYTES, MAX_PHOTOS, speedRpm, VERDICT_TEXT, type CheckFields, type Readings, type Verdict } from "./fieldcheck-form";
 import type { FrozenSelection } from "./projects.server";
 import type { Viewer } from "./libraries.server";
@@ -70,19 +69,10 @@ export type CheckResult = {
   chart: { selected: Pt[]; measured: Pt[]; selectedEff: Pt[]; measuredEff: Pt[]; system: Pt[] | null; flowMax: number; band: { low: number | null; high: number | null } | null; selectedLabel: string; measuredLabel: string };
 };
 
-function pumpPoints(points: FrozenSelection["pump"]["points"]): PumpPoint[] {
-  return points.map((p) => {
-    const o: PumpPoint = { flow: p.flow, head: p.head };
-    if (p.efficiency != null) o.efficiency = p.efficiency;
-    if (p.power != null) o.power = p.power;
-    if (p.npshr != null) o.npshr = p.npshr;
-    return o;
-  });
-}
 
 /** One pump's curve as selected (trim applied; speed ratio returned separately). */
 function selectedCurve(f: FrozenSelection): { base: PumpCurve; trimmed: PumpCurve; designRatio: number } {
-  const base = createPumpCurve({ points: pumpPoints(f.pump.points), speed: f.pump.speed ?? undefined, impellerDiameter: f.pump.impellerDiameter ?? undefined, riseTolerance: 1 });
+  const base = createPumpCurve({ points: toPumpPoints(f.pump.points), speed: f.pump.speed ?? undefined, impellerDiameter: f.pump.impellerDiameter ?? undefined, riseTolerance: 1 });
   const ratio = f.result?.ratio ?? 1;
   if (f.adjustment.method === "trim" && ratio !== 1) return { base, trimmed: scaleByTrim(base, ratio).curve, designRatio: 1 };
   return { base, trimmed: base, designRatio: f.adjustment.method === "speed" ? ratio : 1 };

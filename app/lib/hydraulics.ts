@@ -297,7 +297,8 @@ export type CandidateEvaluation = {
   warnings: string[];
 };
 
-function toPumpPoints(points: CurvePointsIn): PumpPoint[] {
+/** Stored curve points (nullable columns) as engine points (absent columns left out). */
+export function toPumpPoints(points: CurvePointsIn): PumpPoint[] {
   return points.map((p) => {
     const o: PumpPoint = { flow: p.flow, head: p.head };
     if (p.efficiency != null) o.efficiency = p.efficiency;

@@ -14,6 +14,7 @@ import {
   evaluateSystem,
   flowMaxOf,
   SystemInputSchema,
+  toPumpPoints,
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
@@ -296,7 +297,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     id: String(s.id),
     label: s.model,
     curve: {
-      points: s.points.map((p) => ({ flow: p.flow, head: p.head, ...(p.efficiency != null ? { efficiency: p.efficiency } : {}), ...(p.power != null ? { power: p.power } : {}), ...(p.npshr != null ? { npshr: p.npshr } : {}) })),
+      points: toPumpPoints(s.points),
       speed: s.speed ?? undefined,
       impellerDiameter: s.impellerDiameter ?? undefined,
       riseTolerance: 1,
