@@ -1,5 +1,5 @@
 import { reactRouter } from "@react-router/dev/vite";
-import { defineConfig } from "vite";
+import { defineConfig } from "vitest/config";
 
 // One config for the app and for vitest: under vitest the React Router plugin is left out
 // (it expects a full app build), and tsconfig paths are resolved by Vite itself.
@@ -16,4 +16,4 @@ export default defineConfig({
     hookTimeout: 60_000,
     fileParallelism: false,
   },
-} as any);
+});

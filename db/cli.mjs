@@ -5,10 +5,10 @@
 //   npm run dev, npm run db:up / db:down, npm run bench
 // Ctrl-C stops the app and everything this command started.
 import { spawn, spawnSync } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, openSync, closeSync, rmSync } from "node:fs";
 import { randomBytes } from "node:crypto";
 import path from "node:path";
-import { ROOT, DATA_ROOT, startLocalServer, createDatabase, dropDatabase, localServerPaths } from "./mariadb.mjs";
+import { ROOT, DATA_ROOT, startLocalServer, createDatabase, dropDatabase, localServerPaths, ensureDebianPackages, freePort, portFree } from "./mariadb.mjs";
 
 const log = (msg) => process.stderr.write(`[dutymark] ${msg}\n`);
 const cmd = process.argv[2] ?? "start";
@@ -129,8 +129,8 @@ async function ensureDatabase(database, { fresh = false, keepRunning = false } =
     }
     return database.endsWith("_test") && process.env.DATABASE_URL_TEST ? process.env.DATABASE_URL_TEST : u.toString();
   }
-  const port = Number(process.env.DB_PORT ?? 3307);
-  const server = await startLocalServer(port);
+  const server = await startLocalServer();
+  const port = server.port;
   if (server.started && !keepRunning) cleanups.push(server.stop);
   const user = "dutymark";
   const password = localSecrets().dbPassword;
@@ -149,18 +149,25 @@ function baseEnv(extra) {
   };
 }
 
-/** Local stand-ins for hosted services (SMTP, Stripe), started when their code exists. */
-async function startStandIns(env, { smtpPort, stripePort, appUrl }) {
+/**
+ * Local stand-ins for hosted services (SMTP, Stripe), started when their code exists, each on a port
+ * the OS says is free (so several checkouts run side by side). With the SMTP stand-in, the app's
+ * /dev/mailbox shows what it caught; with a real SMTP_URL there is no stand-in and no mailbox.
+ */
+async function startStandIns(env, { appUrl }) {
   const out = {};
   const smtp = path.join(ROOT, "fixtures", "smtp", "server.ts");
   if (existsSync(smtp) && !process.env.SMTP_URL) {
-    const webPort = smtpPort + 1;
+    const smtpPort = await freePort();
+    const webPort = await freePort();
     await startService("SMTP stand-in", npmBin("tsx"), [smtp], { ...env, SMTP_PORT: String(smtpPort), SMTP_WEB_PORT: String(webPort) }, `http://127.0.0.1:${webPort}/health`);
     out.SMTP_URL = `smtp://127.0.0.1:${smtpPort}`;
     out.MAILBOX_API_URL = `http://127.0.0.1:${webPort}`;
+    out.MAILBOX_ENABLED = "1";
   }
   const stripe = path.join(ROOT, "fixtures", "stripe", "server.ts");
   if (existsSync(stripe) && !process.env.STRIPE_API_BASE && !process.env.STRIPE_LIVE) {
+    const stripePort = await freePort();
     await startService(
       "Stripe stand-in",
       npmBin("tsx"),
@@ -186,9 +193,10 @@ async function start() {
   const t0 = Date.now();
   const port = Number(process.env.PORT ?? 3000);
   const host = process.env.HOST ?? "127.0.0.1";
+  if (!(await portFree(port))) throw new Error(`port ${port} is taken (another npm start?): stop it, or choose another with PORT=…`);
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { seedDemo: true });
   const appUrl = process.env.APP_URL ?? `http://${host}:${port}`;
-  Object.assign(env, await startStandIns(env, { smtpPort: 2525, stripePort: 12111, appUrl }), { APP_URL: appUrl });
+  Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
   await mustRun("build", npmBin("react-router"), ["build"], env);
   await startService(
     "app",
@@ -205,7 +213,7 @@ async function dev() {
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { seedDemo: true });
   const port = Number(process.env.PORT ?? 5173);
   const appUrl = `http://127.0.0.1:${port}`;
-  Object.assign(env, await startStandIns(env, { smtpPort: 2525, stripePort: 12111, appUrl }), { APP_URL: appUrl });
+  Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
   const code = await run(npmBin("react-router"), ["dev", "--host", "127.0.0.1", "--port", String(port)], env);
   await stopAll(code);
 }
@@ -218,19 +226,81 @@ function readJson(file) {
   }
 }
 
+/**
+ * One `npm test` at a time per checkout: a second one while the first runs says so and stops,
+ * instead of dropping the first one's database halfway. The lock dies with its process.
+ */
+function takeTestLock() {
+  mkdirSync(DATA_ROOT, { recursive: true });
+  const file = path.join(DATA_ROOT, "test.lock");
+  for (let attempt = 0; attempt < 2; attempt++) {
+    try {
+      const fd = openSync(file, "wx");
+      writeFileSync(fd, String(process.pid));
+      closeSync(fd);
+      cleanups.unshift(() => rmSync(file, { force: true }));
+      return;
+    } catch (e) {
+      if (e.code !== "EEXIST") throw e;
+      const pid = Number(readFileSync(file, "utf8").trim());
+      let alive = false;
+      try {
+        process.kill(pid, 0);
+        alive = pid > 0;
+      } catch {}
+      if (alive) {
+        log(`another npm test is already running in this checkout (pid ${pid}); wait for it to finish, or stop it, then run npm test again`);
+        process.exit(3);
+      }
+      rmSync(file, { force: true }); // left by a run that died
+    }
+  }
+  throw new Error(`could not take ${file}`);
+}
+
+/** Debian's Chromium for the browser tests (no browser download exists on these machines). */
+function ensureChromium() {
+  const exe = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+  ensureDebianPackages(["chromium"], { present: () => existsSync(exe), why: "the browser tests" });
+}
+
+/** Debian's python3 reference libraries, then the engine's reference fixtures regenerated and compared. */
+async function checkReferenceFixtures() {
+  const have = () => spawnSync("/usr/bin/python3", ["-c", "import fluids, iapws, mpmath, scipy"]).status === 0;
+  ensureDebianPackages(["python3-fluids", "python3-iapws", "python3-scipy", "python3-mpmath"], {
+    present: have,
+    why: "the reference-fixtures check",
+  });
+  await mustRun("reference fixtures (python3-fluids / python3-iapws)", "sh", ["fixtures/reference/check.sh"], process.env);
+}
+
+/** Types and lint before any test runs: CI refuses either. */
+async function staticChecks() {
+  await mustRun("type check (npm run typecheck)", "npm", ["run", "--silent", "typecheck"], process.env);
+  await mustRun("lint (npm run lint)", "npm", ["run", "--silent", "lint"], process.env);
+}
+
 async function test() {
   const t0 = Date.now();
   const onlyUnit = process.argv.includes("--unit");
   const onlyE2e = process.argv.includes("--e2e");
+  takeTestLock();
+  ensureDependencies();
+  if (!onlyUnit) ensureChromium();
+  if (!onlyUnit && !onlyE2e) {
+    await staticChecks();
+    await checkReferenceFixtures();
+  }
   const env = await prepare(process.env.DB_NAME_TEST ?? "dutymark_test", { fresh: true, seedDemo: true });
   env.NODE_ENV = "test";
   // A second, empty database for tests that replace a whole database (backup/restore round trip).
   env.DATABASE_URL_SCRATCH = await ensureDatabase(`${process.env.DB_NAME_TEST ?? "dutymark_test"}_scratch`, { fresh: true });
-  const port = Number(process.env.TEST_PORT ?? 3100);
+  // Ports the OS says are free (TEST_PORT fixes the relay's), so npm test runs beside npm start or another checkout.
+  const port = process.env.TEST_PORT ? Number(process.env.TEST_PORT) : await freePort();
   // Browser tests reach two app processes on one database through a round-robin relay on `port`.
-  const appPorts = [port + 1, port + 2];
+  const appPorts = [await freePort(), await freePort()];
   const appUrl = `http://127.0.0.1:${port}`;
-  Object.assign(env, await startStandIns(env, { smtpPort: 2625, stripePort: 12211, appUrl }), { APP_URL: appUrl });
+  Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
   mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
   const vitestJson = path.join(DATA_ROOT, "reports", "vitest.json");
   const pwJson = path.join(DATA_ROOT, "reports", "playwright.json");
@@ -294,15 +364,14 @@ async function bench() {
 
 async function dbUp() {
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { seedDemo: true, keepDb: true });
-  const { socket } = localServerPaths(Number(process.env.DB_PORT ?? 3307));
+  const { socket } = localServerPaths();
   log(`DATABASE_URL=${env.DATABASE_URL}`);
   log(`socket: ${socket} (stop with npm run db:down)`);
   process.exit(0);
 }
 
 async function dbDown() {
-  const port = Number(process.env.DB_PORT ?? 3307);
-  const { socket } = localServerPaths(port);
+  const { socket } = localServerPaths();
   spawnSync("mariadb-admin", ["--no-defaults", `--socket=${socket}`, "-uroot", "shutdown"], { stdio: "inherit" });
   log("MariaDB asked to stop");
 }

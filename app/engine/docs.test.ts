@@ -23,7 +23,8 @@ function exportedFunctions(src: string): { name: string; doc: string; params: st
   let m: RegExpExecArray | null;
   while ((m = re.exec(src))) {
     // Parameter list: scan to the matching parenthesis.
-    let depth = 1, i = re.lastIndex, start = i;
+    let depth = 1, i = re.lastIndex;
+    const start = i;
     for (; i < src.length && depth > 0; i++) {
       const ch = src[i];
       if (ch === "(" || ch === "{" || ch === "[") depth++;

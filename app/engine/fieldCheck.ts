@@ -193,7 +193,7 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
   const accD = requireNonNegative("discharge.accuracy", input.discharge?.accuracy ?? 0);
   const dH = Math.hypot(accS, accD) / (rho * G0);
   const tdhAt = (q: number) => gaugeTdh(input.suction, input.discharge, q, rho).tdh;
-  let dutyDeviation: FieldCheckResult["dutyDeviation"] = null;
+  let dutyDeviation: FieldCheckResult["dutyDeviation"];
   const dutyDev = (q: number, h: number) => {
     if (!input.duty) return null;
     const qd = requirePositive("duty.flow", input.duty.flow);

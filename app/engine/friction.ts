@@ -4,12 +4,15 @@
  * and warn). Darcy f is dimensionless; Re and ε/D are dimensionless.
  */
 
+// The constants keep Clamond's 40 published digits on purpose (the nearest double is what runs).
+/* eslint-disable no-loss-of-precision */
 /** ln(10)/18.574 to 40 digits (Clamond 2009). */
 const CL_X1 = 0.1239681863354175460160858261654858382699;
 /** ln(ln(10)/5.02) (Clamond 2009). */
 const CL_X2 = 0.7793974884556819406441139701653776731705;
 /** (ln(10)/2)² (Clamond 2009). */
 const CL_F = 1.325474527619599502640416597148504422899;
+/* eslint-enable no-loss-of-precision */
 
 // Natural logarithm for the Colebrook solver: x = 2^k·m, m ∈ [1, 2); ln m = ln c_j + ln(1 + r)
 // with c_j the centre of one of 128 mantissa cells, r = m/c_j − 1 (|r| < 1/256) and ln(1 + r)

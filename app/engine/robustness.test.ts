@@ -40,7 +40,7 @@ function check(label: string, fn: () => unknown) {
   try {
     out = fn();
   } catch (e) {
-    if (!(e instanceof EngineInputError)) throw new Error(`${label}: threw ${(e as Error)?.name}: ${(e as Error)?.message}`);
+    if (!(e instanceof EngineInputError)) throw new Error(`${label}: threw ${(e as Error)?.name}: ${(e as Error)?.message}`, { cause: e });
     expect(e.parameter.length, label).toBeGreaterThan(0);
     expect(e.reason.length, label).toBeGreaterThan(0);
     return "threw";

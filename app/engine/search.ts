@@ -113,8 +113,8 @@ class PackBuilder {
 
 /** Monotone cubic (Fritsch-Carlson, see interp.ts) of set i in a packed column; null outside or absent. */
 function evalPacked(p: Packed, i: number, t: number): number | null {
-  let lo = p.off[i];
-  let hi = p.off[i + 1] - 1;
+  const lo = p.off[i];
+  const hi = p.off[i + 1] - 1;
   if (hi < lo) return null;
   const x = p.x;
   if (!(t >= x[lo] && t <= x[hi])) return null;
@@ -164,7 +164,7 @@ export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
     // Raw input: the same checks as createPumpCurve, packed straight into the index (no
     // per-curve objects, so a large library loads quickly and costs little memory).
     let v: { headMax: number; drooping: boolean };
-    let sp = -1, dia = -1, dMin = -1, dMax = -1, rhoP = 1000;
+    let sp: number, dia: number, dMin: number, dMax: number, rhoP: number;
     const input = curve as PumpCurveInput;
     try {
       if (!input || typeof input !== "object") throw new EngineInputError("curve", "is required");

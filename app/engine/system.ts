@@ -122,7 +122,7 @@ export function prepareSystem(spec: SystemSpec): PreparedSystem {
   if (lossModel !== "darcy" && lossModel !== "hazen-williams") throw new EngineInputError("lossModel", "must be 'darcy' or 'hazen-williams'");
   const warnings: EngineWarning[] = [];
   let st = { min: 0, max: 0, nominal: 0 };
-  let fixedHead = 0;
+  let fixedHead: number;
   if (mode === "open") {
     const s = spec.staticHead ?? 0;
     if (typeof s === "number") {

@@ -406,6 +406,7 @@ export async function readPhotos(files: FormDataEntryValue[], already = 0): Prom
     const bytes = Buffer.from(await f.arrayBuffer());
     const type = sniffImage(bytes);
     if (!type) throw new PhotoRejected(`${f.name} is not a JPEG, PNG or WebP image.`);
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what is stripped
     const name = (f.name.split(/[\\/]/).pop() ?? "photo").replace(/[\u0000-\u001f\u007f"]/g, "").slice(0, 200) || "photo";
     out.push({ filename: name, contentType: type, bytes });
   }

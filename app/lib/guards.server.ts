@@ -73,7 +73,7 @@ export type ApiCaller = {
  */
 export async function requireApi(request: Request, permission: Permission): Promise<ApiCaller> {
   const authz = request.headers.get("authorization");
-  let caller: ApiCaller | null = null;
+  let caller: ApiCaller;
   if (authz) {
     const m = /^Bearer\s+([A-Za-z0-9_\-.]{10,200})$/i.exec(authz.trim());
     if (!m) throw unauthorized("Malformed Authorization header.");

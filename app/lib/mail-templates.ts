@@ -23,6 +23,7 @@ export function escapeHtml(s: string): string {
 
 /** One line, no control characters, at most `max` characters (subjects and short labels). */
 export function oneLine(s: string, max = 120): string {
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is replaced
   const flat = s.replace(/[\u0000-\u001f\u007f]+/g, " ").replace(/\s+/g, " ").trim();
   const chars = [...flat];
   return chars.length > max ? `${chars.slice(0, max - 1).join("")}…` : flat;

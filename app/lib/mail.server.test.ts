@@ -198,6 +198,7 @@ describe("mailboxEnabled", () => {
   });
 
   test("off in production unless test mode or MAILBOX_ENABLED=1", () => {
+    process.env.MAILBOX_API_URL ??= "http://127.0.0.1:9/";
     process.env.NODE_ENV = "production";
     delete process.env.DUTYMARK_TEST_MODE;
     delete process.env.MAILBOX_ENABLED;
@@ -210,5 +211,20 @@ describe("mailboxEnabled", () => {
     delete process.env.MAILBOX_ENABLED;
     process.env.NODE_ENV = "development";
     expect(mailboxEnabled()).toBe(true);
+  });
+
+  test("off whenever no stand-in catches the mail (a real SMTP_URL), whatever MAILBOX_ENABLED says", () => {
+    const saved = process.env.MAILBOX_API_URL;
+    try {
+      delete process.env.MAILBOX_API_URL;
+      process.env.NODE_ENV = "development";
+      process.env.MAILBOX_ENABLED = "1";
+      expect(mailboxEnabled()).toBe(false);
+      process.env.MAILBOX_API_URL = "http://127.0.0.1:9/";
+      expect(mailboxEnabled()).toBe(true);
+    } finally {
+      if (saved === undefined) delete process.env.MAILBOX_API_URL;
+      else process.env.MAILBOX_API_URL = saved;
+    }
   });
 });

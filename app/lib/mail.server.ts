@@ -295,7 +295,13 @@ export type MailboxMessage = {
 export type MailboxMessageFull = MailboxMessage & { headers: Record<string, string>; raw: string };
 
 /** The development mailbox is shown outside production, or in production when explicitly enabled. */
+/**
+ * The dev mailbox shows what the local SMTP stand-in caught: only when the stand-in is what receives
+ * mail (MAILBOX_API_URL, set by npm start / dev / test), and outside production unless asked for
+ * (npm start asks with MAILBOX_ENABLED=1). With a real SMTP_URL there is no stand-in, so never.
+ */
 export function mailboxEnabled(): boolean {
+  if (!mailboxApiUrl()) return false;
   return (
     process.env.NODE_ENV !== "production" || process.env.DUTYMARK_TEST_MODE === "1" || process.env.MAILBOX_ENABLED === "1"
   );

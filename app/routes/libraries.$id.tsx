@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower } from "~/components/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
 import { can } from "~/lib/permissions";
 import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
 import { VISIBILITIES } from "~/lib/constants";

@@ -47,11 +47,23 @@ function relay(target: { host: string; port: number }) {
     new Promise<void>((resolve) => {
       for (const s of sockets) s.destroy();
       sockets.clear();
-      server ? server.close(() => resolve()) : resolve();
+      if (server) server.close(() => resolve());
+      else resolve();
       server = null;
     });
   return { open, cut, get port() { return port; } };
 }
+
+/** A port the OS says is free now (never a fixed one: other checkouts may run beside this one). */
+const freePort = () =>
+  new Promise<number>((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
 
 const dbUrl = new URL(process.env.DATABASE_URL ?? "mariadb://x@127.0.0.1:3307/x");
 const target = { host: dbUrl.hostname, port: Number(dbUrl.port || 3306) };
@@ -139,7 +151,7 @@ describe.runIf(built)("the app while the database is away (production build behi
     const e = await makeMember("engineer");
     token = (await createApiToken({ userId: e.userId, workspaceId: e.workspaceId, name: "faults", scope: "read" })).token;
     cookie = e.cookie;
-    const appPort = 3800 + Math.floor(Math.random() * 90);
+    const appPort = await freePort();
     base = `http://127.0.0.1:${appPort}`;
     app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
       cwd: ROOT,

@@ -49,10 +49,11 @@ const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v
 const r1 = (v: number) => Math.round(v * 10) / 10;
 
 export function DutyChart(props: DutyChartProps) {
+  // The model depends on these inputs only; rebuilt when one changes (objects compared by identity).
+  const { unitSystem, system, pumps, npsha, duty, flowMax, height, compact } = props;
   const model = useMemo(
-    () => buildChartModel(props),
-    // Rebuild when any input changes (props objects are compared by identity).
-    [props.unitSystem, props.system, props.pumps, props.npsha, props.duty, props.flowMax, props.height, props.compact],
+    () => buildChartModel({ unitSystem, system, pumps, npsha, duty, flowMax, height, compact }),
+    [unitSystem, system, pumps, npsha, duty, flowMax, height, compact],
   );
   const uid = "dc" + useId().replace(/[^A-Za-z0-9_-]/g, "");
   const titleId = `${uid}-title`;
@@ -64,7 +65,8 @@ export function DutyChart(props: DutyChartProps) {
   const [emphasis, setEmphasis] = useState<string | null>(null);
   const [announce, setAnnounce] = useState(false);
 
-  const { x, width, height, margin, panels, units } = model;
+  const { x, width, panels, units } = model;
+  const chartHeight = model.height;
   const [x0, x1] = x.range() as [number, number];
   const cursor =
     cursorSI === null || !Number.isFinite(cursorSI) ? null : clamp(flowToDisplay(cursorSI, units), 0, model.flowMax);
@@ -149,7 +151,7 @@ export function DutyChart(props: DutyChartProps) {
         className="relative rounded-md outline-offset-2"
       >
         <svg
-          viewBox={`0 0 ${width} ${height}`}
+          viewBox={`0 0 ${width} ${chartHeight}`}
           width="100%"
           role="img"
           aria-labelledby={`${titleId} ${descId}`}
@@ -170,7 +172,7 @@ export function DutyChart(props: DutyChartProps) {
               </clipPath>
             ))}
           </defs>
-          <rect x={0} y={0} width={width} height={height} fill="#ffffff" />
+          <rect x={0} y={0} width={width} height={chartHeight} fill="#ffffff" />
 
           {panels.map((panel) => (
             <PanelFrame key={panel.kind} panel={panel} model={model} isLast={panel === last} />
@@ -192,7 +194,7 @@ export function DutyChart(props: DutyChartProps) {
           {/* x axis title */}
           <text
             x={(x0 + x1) / 2}
-            y={height - 8}
+            y={chartHeight - 8}
             textAnchor="middle"
             fill={C.title}
             fontWeight={600}
@@ -560,7 +562,7 @@ function Crosshair({
   /** Draw the readout box in the SVG (wide layout); compact shows it as HTML below. */
   box: boolean;
 }) {
-  const { x, panels, width } = model;
+  const { x, panels } = model;
   const [x0, x1] = x.range() as [number, number];
   const cx = x(flow);
   const rows = readoutRows(model, flow, hidden);

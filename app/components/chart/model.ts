@@ -76,7 +76,10 @@ const TITLE_H = 18;
 const GAP = 12;
 
 /** Builds the chart model from props (all SI in, display units out). */
-export function buildChartModel(props: DutyChartProps): ChartModel {
+/** What the model is built from: the chart's data props, not its labels or callbacks. */
+export type ChartModelInput = Pick<DutyChartProps, "unitSystem" | "system" | "pumps" | "npsha" | "duty" | "flowMax" | "height" | "compact">;
+
+export function buildChartModel(props: ChartModelInput): ChartModel {
   const compact = Boolean(props.compact);
   const units = displayUnits(props.unitSystem);
 
