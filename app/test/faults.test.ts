@@ -112,7 +112,9 @@ beforeAll(() => {
 });
 afterAll(() => closeDb());
 
-describe("an import interrupted before COMMIT leaves nothing behind", () => {
+// Each case spawns an importer and waits for MariaDB to roll back 20 000 rows: generous time-outs
+// (hang guards, not timings) so a busy machine does not fail them.
+describe("an import interrupted before COMMIT leaves nothing behind", { timeout: 60_000 }, () => {
   test("the importing process is killed", async () => {
     const d = await makeMember("distributor");
     const libId = await createLibrary({ userId: d.userId, workspace: { id: d.workspaceId, name: "w", slug: "w", plan: "free" }, role: "distributor" }, { name: "killed", description: "" });
