@@ -3,6 +3,7 @@ import { type RouteConfig, index, route } from "@react-router/dev/routes";
 export default [
   index("routes/home.tsx"),
   route("healthz", "routes/healthz.ts"),
+  route("livez", "routes/livez.ts"),
   // accounts
   route("signup", "routes/signup.tsx"),
   route("signin", "routes/signin.tsx"),

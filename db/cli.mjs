@@ -185,7 +185,7 @@ async function prepare(database, { fresh, seedDemo, keepDb } = {}) {
   const url = await ensureDatabase(database, { fresh, keepRunning: keepDb });
   const env = baseEnv({ DATABASE_URL: url });
   await mustRun("migrations", npmBin("tsx"), ["db/migrate.ts"], env);
-  if (seedDemo) await mustRun("demo data", npmBin("tsx"), ["db/seed.ts"], env);
+  if (seedDemo) await mustRun("demo data", npmBin("tsx"), ["app/cli/seed.ts"], env);
   return env;
 }
 
@@ -379,7 +379,7 @@ async function dbDown() {
 /** `npm run admin -- …`: the operator commands, on the same database as npm start. */
 async function admin() {
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { keepDb: true });
-  const code = await run(npmBin("tsx"), ["db/admin.ts", ...process.argv.slice(3)], env);
+  const code = await run(npmBin("tsx"), ["app/cli/admin.ts", ...process.argv.slice(3)], env);
   process.exit(code);
 }
 

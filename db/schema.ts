@@ -27,7 +27,7 @@ export const ref = (name: string) => bigint(name, { mode: "number", unsigned: tr
 export const createdAt = () =>
   datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
 
-import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "../app/lib/constants";
+import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "./enums";
 export { PLANS, ROLES, VISIBILITIES, type Role, type Visibility };
 
 export const workspaces = mysqlTable(

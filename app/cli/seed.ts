@@ -1,16 +1,16 @@
 // Demo data, idempotent: running it twice changes nothing. All names are invented.
-// Run by `npm start` (not by `npm test`, whose database starts empty apart from what tests add).
+// Run by `npm start` and `npm test` (db/cli.mjs) after the migrations.
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
 import { hash } from "@node-rs/argon2";
-import { closeDb, db, withTransaction } from "./client.server";
-import { libraries, memberships, users, workspaces, type Role } from "./schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../app/lib/libraries.server";
-import { addCandidate, createProject, createSystem, listProjects, searchForSystem, selectCandidate } from "../app/lib/projects.server";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../app/lib/hydraulics";
-import { innerDiameter, material as materialOf } from "../app/engine";
-import { demoLibraries } from "../fixtures/demo";
+import { closeDb, db, withTransaction } from "../../db/client.server";
+import { libraries, memberships, users, workspaces, type Role } from "../../db/schema";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../lib/libraries.server";
+import { addCandidate, createProject, createSystem, listProjects, searchForSystem, selectCandidate } from "../lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../lib/hydraulics";
+import { innerDiameter, material as materialOf } from "../engine";
+import { demoLibraries } from "../../fixtures/demo";
 import { seedFieldChecks } from "./seed-fieldchecks";
 
 export const DEMO_PASSWORD = "duty-demo-2026";
