@@ -11,6 +11,8 @@ const PAGES: { who: string | null; paths: string[] }[] = [
 
 for (const group of PAGES) {
   test(`accessibility: ${group.who ?? "visitor"} pages have no serious or critical axe violations`, async ({ page }) => {
+    // Up to nine pages with axe on each: a hang guard per page, not a timing (busy machines are slow).
+    test.setTimeout(30_000 * (group.paths.length + 1));
     if (group.who) await signIn(page, group.who);
     const found: Record<string, unknown> = {};
     for (const p of group.paths) {
