@@ -17,7 +17,7 @@ import { getAuth } from "~/lib/auth.server";
 import { currentMembership } from "~/lib/guards.server";
 import { problem } from "~/lib/problem.server";
 import { ensureOutboxFlusher } from "~/lib/mail.server";
-import { databaseAlive } from "~/lib/health.server";
+import { databaseTrouble } from "~/lib/health.server";
 
 /** Bodies above these sizes are refused before any action reads them (413). */
 const BODY_LIMITS: [RegExp, number][] = [
@@ -45,9 +45,10 @@ export const middleware: Route.MiddlewareFunction[] = [
       throw data(detail, { status: 413 });
     }
     const res = await next();
-    // A request that failed because the database is away is a 503 (the page says "temporarily
-    // unavailable"; the API answers problem+json), never a 500. The pool reconnects by itself.
-    if (res instanceof Response && res.status === 500 && !(await databaseAlive(800))) {
+    // A request that failed because the database is away (or a cluster node just went) is a 503
+    // (the page says "temporarily unavailable"; the API answers problem+json), never a 500. The
+    // pool reconnects, or moves to the next node, by itself.
+    if (res instanceof Response && res.status === 500 && (await databaseTrouble(800))) {
       const detail = "The database is not answering. Your data is safe; try again in a moment.";
       if (isApi) return problem({ title: "Service Unavailable", status: 503, detail }, { "Retry-After": "5" });
       throw data(detail, { status: 503, headers: { "Retry-After": "5" } });

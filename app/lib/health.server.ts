@@ -1,4 +1,4 @@
-import { dbAlive } from "@db/client.server";
+import { connectionLostWithin, dbAlive } from "@db/client.server";
 import pkg from "../../package.json";
 
 /** Readiness: the process answers and the database does (GET /healthz). */
@@ -12,7 +12,11 @@ export function liveness() {
   return { status: "ok" as const, version: pkg.version, uptime: Math.round(process.uptime()) };
 }
 
-/** Whether the database answers within `timeoutMs` (the root middleware asks after a 500). */
-export function databaseAlive(timeoutMs?: number): Promise<boolean> {
-  return dbAlive(timeoutMs);
+/**
+ * Whether a request that failed with 500 failed because of the database: a query lost its
+ * connection in the last few seconds (a cluster node went away; the pool moves to the next one),
+ * or the database does not answer now.
+ */
+export async function databaseTrouble(timeoutMs: number): Promise<boolean> {
+  return connectionLostWithin(5000) || !(await dbAlive(timeoutMs));
 }

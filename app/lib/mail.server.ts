@@ -13,7 +13,7 @@
 //   MAILBOX_API_URL  the SMTP stand-in's HTTP API, read by the development mailbox page.
 import nodemailer, { type Transporter } from "nodemailer";
 import { and, desc, eq, isNull, lt, sql } from "drizzle-orm";
-import { db } from "@db/client.server";
+import { db, retryOnConflict } from "@db/client.server";
 import { outbox } from "@db/schema";
 
 export type MailMessage = { to: string; subject: string; text: string; html: string };
@@ -119,10 +119,14 @@ type OutboxRow = typeof outbox.$inferSelect;
  * two workers (the sender and the flusher, or two app processes) never send the same row twice.
  */
 async function claim(id: number, attemptsSeen: number): Promise<boolean> {
-  const res = (await db()
-    .update(outbox)
-    .set({ attempts: sql`${outbox.attempts} + 1` })
-    .where(and(eq(outbox.id, id), eq(outbox.attempts, attemptsSeen), isNull(outbox.sentAt)))) as unknown;
+  // A certification conflict on a Galera cluster (another node claimed it first) is retried: the
+  // repeated update then finds `attempts` raised and claims nothing.
+  const res = (await retryOnConflict(() =>
+    db()
+      .update(outbox)
+      .set({ attempts: sql`${outbox.attempts} + 1` })
+      .where(and(eq(outbox.id, id), eq(outbox.attempts, attemptsSeen), isNull(outbox.sentAt))),
+  )) as unknown;
   const header = (Array.isArray(res) ? res[0] : res) as { affectedRows?: number } | undefined;
   return (header?.affectedRows ?? 0) === 1;
 }
