@@ -4,7 +4,7 @@
 // the OS says are free (SQL, group communication, IST, SST). Node 1 bootstraps the cluster
 // (--wsrep-new-cluster); nodes 2 and 3 start from a copy of its data directory and join it.
 import { spawn, spawnSync } from "node:child_process";
-import { chmodSync, cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { DATA_ROOT, ensureDebianPackages, freePort, ping } from "./mariadb.mjs";
 
@@ -68,7 +68,7 @@ async function stopNode(node, { kill = false } = {}) {
   if (pidAlive(node.pid)) process.kill(node.pid, "SIGKILL");
 }
 
-async function startNode(node, { bootstrap, clusterAddress }) {
+async function startNode(node, { bootstrap, clusterAddress, recover = false }) {
   if (!existsSync(path.join(node.dir, "mysql"))) {
     rmSync(node.dir, { recursive: true, force: true });
     mkdirSync(node.dir, { recursive: true });
@@ -104,17 +104,32 @@ async function startNode(node, { bootstrap, clusterAddress }) {
     `--wsrep-cluster-address=${bootstrap ? "gcomm://" : clusterAddress}`,
     `--wsrep-node-name=${node.name}`,
     `--wsrep-node-address=127.0.0.1:${node.gcommPort}`,
-    `--wsrep-provider-options=gmcast.listen_addr=tcp://127.0.0.1:${node.gcommPort};ist.recv_addr=127.0.0.1:${node.istPort};gcache.size=64M`,
+    `--wsrep-provider-options=gmcast.listen_addr=tcp://127.0.0.1:${node.gcommPort};ist.recv_addr=127.0.0.1:${node.istPort};gcache.size=256M`,
     // Joiners start from a copy of node 1's data directory, so they catch up by IST (incremental,
-    // from the donor's gcache), also after a restart in the node-loss test; rsync is the method that
-    // runs the IST hand-shake. Its daemon, started by root, writes as `nobody`: the data directory's
-    // top level is opened to it (test data directories only, see startGaleraCluster).
+    // from the donor's gcache), also after a restart in the node-loss test; rsync runs the IST
+    // hand-shake, and a full transfer if one is ever needed. Its daemon, started by root, writes as
+    // `nobody`: the node's files are opened to it (test data directories only, see startNode).
     "--wsrep-sst-method=rsync",
     `--wsrep-sst-receive-address=127.0.0.1:${node.sstPort}`,
     // Read-your-writes across nodes: a read waits until the node has applied what the cluster committed before it.
     "--wsrep-sync-wait=1",
   ];
   if (bootstrap) args.push("--wsrep-new-cluster");
+  if (recover) {
+    // After a crash the node does not know its position (grastate.dat says seqno -1): recover it
+    // from InnoDB the way the packaged service does (mariadbd --wsrep-recover), then start from it,
+    // so the node catches up by IST instead of needing a full state transfer.
+    const recoverLog = path.join(path.dirname(node.logFile), `${node.name}.recover.err`);
+    rmSync(recoverLog, { force: true });
+    spawnSync(which("mariadbd"), [...args.filter((a) => !a.startsWith("--log-error=")), `--log-error=${recoverLog}`, "--wsrep-recover"], { stdio: "ignore" });
+    const m = /Recovered position:\s*([0-9a-f-]{36}:-?\d+)/.exec(readFileSync(recoverLog, "utf8"));
+    if (m) {
+      args.push(`--wsrep-start-position=${m[1]}`);
+      log(`${node.name}: recovered position ${m[1]}`);
+    }
+  }
+  // A full state transfer (rsync) writes as `nobody` when started by root: open the node's files to it.
+  spawnSync("chmod", ["-R", "a+rwX", node.dir]);
   const child = spawn(which("mariadbd"), args, { stdio: "ignore", detached: true });
   child.unref();
   node.pid = child.pid;
@@ -171,13 +186,12 @@ export async function startGaleraCluster(size = 3) {
     rmSync(path.join(node.dir, "gvwstate.dat"), { force: true });
   }
   rmSync(path.join(first.dir, "gvwstate.dat"), { force: true });
-  for (const node of nodes) chmodSync(node.dir, 0o777);
   for (const [i, node] of nodes.entries()) {
     const t0 = Date.now();
     await startNode(node, { bootstrap: i === 0, clusterAddress });
     log(`${node.name} synced on 127.0.0.1:${node.port} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
     node.stop = (opts) => stopNode(node, opts);
-    node.start = () => startNode(node, { bootstrap: false, clusterAddress });
+    node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true });
   }
   const size_ = wsrepStatus(nodes[0].socket, "wsrep_cluster_size");
   if (Number(size_) !== size) throw new Error(`the cluster has ${size_} nodes, expected ${size}`);
