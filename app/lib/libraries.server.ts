@@ -10,6 +10,7 @@ import { analyseCsv, MappingSchema, type AnalyseResult, type Mapping } from "./i
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
 import * as v from "valibot";
+import { sweepPendingUploads } from "./uploads.server";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -140,6 +141,7 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
   const bytes = Buffer.from(await file.arrayBuffer());
   decodeUtf8(bytes, file.name);
   const sha256 = createHash("sha256").update(bytes).digest("hex");
+  await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
   const [{ id }] = await db()
     .insert(uploads)
     .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
