@@ -11,6 +11,7 @@ import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
 import * as v from "valibot";
 import { sweepPendingUploads } from "./uploads.server";
+import { toCsv } from "./csv";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -491,15 +492,12 @@ export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,hea
 
 /** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
-  const q = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
-  const n = (x: number | null, scale: number, digits: number) => (x == null ? "" : String(+(x * scale).toFixed(digits)));
-  const lines = [EXPORT_HEADER];
+  const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));
+  const rows: unknown[][] = [EXPORT_HEADER.split(",")];
   for (const c of curves) {
     for (const p of c.points) {
-      lines.push(
-        [q(c.model), q(c.type), q(c.nominalSize), n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)].join(","),
-      );
+      rows.push([c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)]);
     }
   }
-  return lines.join("\n") + "\n";
+  return toCsv(rows, { newline: "\n" });
 }
