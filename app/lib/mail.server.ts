@@ -193,9 +193,16 @@ export async function queueMail(message: MailMessage): Promise<{ id: number }> {
     .$returningId();
   ensureOutboxFlusher();
   if (!(process.env.VITEST && process.env.MAIL_FLUSH_INTERVAL_MS === undefined)) {
-    setImmediate(() => {
-      flushOutbox({ limit: 20 }).catch((err) => logOnce(`flush:${describeError(err)}`, `outbox flush failed: ${describeError(err)}`));
-    });
+    const url = smtpUrl();
+    if (url) {
+      setImmediate(() => {
+        (async () => {
+          if (!(await claim(id, 0))) return; // the flusher got there first
+          const error = await deliver({ id, toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html }, url);
+          if (error) logOnce(`send:${error}`, `outbox row ${id} not sent yet (${error}); it will be retried`);
+        })().catch((err) => logOnce(`kick:${describeError(err)}`, `outbox delivery failed: ${describeError(err)}`));
+      });
+    } else holdNotice();
   }
   return { id };
 }

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, memberships, outbox, sessions, signInAttempts, users } from "@db/schema";
-import { acceptInvitation, createApiToken, FORGOT_LIMITS, invite, requestPasswordReset, resetPassword, signUp } from "~/lib/accounts.server";
+import { acceptInvitation, createApiToken, FORGOT_LIMITS, invite, requestPasswordReset, resetPassword } from "~/lib/accounts.server";
 import { checkCredentials, deviceId, THROTTLE, throttleDelaySeconds } from "~/lib/auth.server";
 import { flushOutbox } from "~/lib/mail.server";
 import { requireApi } from "~/lib/guards.server";
