@@ -19,7 +19,10 @@ import { problem } from "~/lib/problem.server";
 import { ensureOutboxFlusher } from "~/lib/mail.server";
 import { databaseTrouble } from "~/lib/health.server";
 
-/** Bodies above these sizes are refused before any action reads them (413). */
+/**
+ * Bodies that declare more than these sizes are refused before any action reads them (413). The
+ * bytes actually read (chunked bodies too) are counted by app/serve.mjs against the same table.
+ */
 const BODY_LIMITS: [RegExp, number][] = [
   [/\/upload$/, 25 * 1024 * 1024],
   [/\/photos$/, 12 * 1024 * 1024],
@@ -55,6 +58,14 @@ export const middleware: Route.MiddlewareFunction[] = [
     }
     const auth = await getAuth(request).catch(() => null);
     if (auth?.refreshCookie && res instanceof Response) res.headers.append("Set-Cookie", auth.refreshCookie);
+    // Nothing personal is kept by a browser or a shared cache: signed-in pages, exports and the API.
+    if (res instanceof Response && (auth || isApi || /\/export\.(csv|json)$/.test(url.pathname))) {
+      try {
+        res.headers.set("Cache-Control", "private, no-store");
+      } catch {
+        /* immutable headers (a fetched Response): leave them */
+      }
+    }
     return res;
   },
 ];

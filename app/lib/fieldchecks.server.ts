@@ -33,6 +33,7 @@ import type { Viewer } from "./libraries.server";
 import { sendMail } from "./mail.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "./mail-templates";
 import { appUrl } from "./accounts.server";
+import { toCsv } from "./csv";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 export { DEFAULT_GRADE, MAX_PHOTOS, MAX_PHOTO_BYTES, VERDICT_TEXT, type Verdict } from "./fieldcheck-form";
@@ -534,13 +535,7 @@ async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fie
 }
 
 // ── History CSV ────────────────────────────────────────────────────────────────────────────
-const cell = (x: unknown) => {
-  if (x == null) return "";
-  let s = typeof x === "number" ? (Number.isFinite(x) ? String(+x.toPrecision(8)) : "") : String(x);
-  if (typeof x === "string" && /^[=+\-@\t\r]/.test(s)) s = `'${s}`; // no formulas from free text in a spreadsheet
-  return /[",\n\r;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-};
-const csvRow = (xs: unknown[]) => xs.map(cell).join(",");
+const csvRow = (xs: unknown[]) => xs;
 
 export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string {
   const lines = [
@@ -564,7 +559,7 @@ export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string 
       ]),
     );
   }
-  return lines.join("\r\n") + "\r\n";
+  return toCsv(lines, { precision: 8 });
 }
 
 // ── Sharing ────────────────────────────────────────────────────────────────────────────────

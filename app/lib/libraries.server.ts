@@ -10,6 +10,8 @@ import { analyseCsv, MappingSchema, type AnalyseResult, type Mapping } from "./i
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
 import * as v from "valibot";
+import { sweepPendingUploads } from "./uploads.server";
+import { toCsv } from "./csv";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -140,6 +142,7 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
   const bytes = Buffer.from(await file.arrayBuffer());
   decodeUtf8(bytes, file.name);
   const sha256 = createHash("sha256").update(bytes).digest("hex");
+  await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
   const [{ id }] = await db()
     .insert(uploads)
     .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
@@ -489,15 +492,12 @@ export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,hea
 
 /** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
-  const q = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
-  const n = (x: number | null, scale: number, digits: number) => (x == null ? "" : String(+(x * scale).toFixed(digits)));
-  const lines = [EXPORT_HEADER];
+  const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));
+  const rows: unknown[][] = [EXPORT_HEADER.split(",")];
   for (const c of curves) {
     for (const p of c.points) {
-      lines.push(
-        [q(c.model), q(c.type), q(c.nominalSize), n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)].join(","),
-      );
+      rows.push([c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)]);
     }
   }
-  return lines.join("\n") + "\n";
+  return toCsv(rows, { newline: "\n" });
 }

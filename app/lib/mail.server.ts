@@ -183,6 +183,34 @@ export async function sendMail(message: MailMessage): Promise<SendOutcome> {
   return error ? { id, sent: false, error } : { id, sent: true };
 }
 
+/**
+ * Writes the message to the outbox and returns at once: delivery happens after the request, from a
+ * background kick (setImmediate) and the periodic flusher. Account mail uses this, so a request
+ * takes the same time whether or not a message was written, and never waits on an SMTP server.
+ * Under vitest the kick is off unless MAIL_FLUSH_INTERVAL_MS is set (tests flush by hand).
+ */
+export async function queueMail(message: MailMessage): Promise<{ id: number }> {
+  const m = validate(message);
+  const [{ id }] = await db()
+    .insert(outbox)
+    .values({ toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html })
+    .$returningId();
+  ensureOutboxFlusher();
+  if (!(process.env.VITEST && process.env.MAIL_FLUSH_INTERVAL_MS === undefined)) {
+    const url = smtpUrl();
+    if (url) {
+      setImmediate(() => {
+        (async () => {
+          if (!(await claim(id, 0))) return; // the flusher got there first
+          const error = await deliver({ id, toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html }, url);
+          if (error) logOnce(`send:${error}`, `outbox row ${id} not sent yet (${error}); it will be retried`);
+        })().catch((err) => logOnce(`kick:${describeError(err)}`, `outbox delivery failed: ${describeError(err)}`));
+      });
+    } else holdNotice();
+  }
+  return { id };
+}
+
 /** SQL: seconds after creation at which a row with its current `attempts` is due again. */
 function retryAfterSql() {
   const cases = RETRY_AFTER_SECONDS.map((s, i) => sql`WHEN ${sql.raw(String(i))} THEN ${sql.raw(String(s))}`);

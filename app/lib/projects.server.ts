@@ -284,7 +284,14 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const system = await getSystem(viewer, systemId);
   const { open, locked } = await searchableRevisions(viewer);
   if (!system.input.duty) return { system, results: [], locked, stats: null, message: "Set a duty point (flow and head) first." };
-  const evaluation = evaluateSystem(system.input);
+  let evaluation: ReturnType<typeof evaluateSystem>;
+  try {
+    evaluation = evaluateSystem(system.input);
+  } catch (e) {
+    // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
+    // user's to fix, not a server fault: the page says why.
+    return { system, results: [], locked, stats: null, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
+  }
   const dutyHead = system.input.duty.head;
   const sets = open.length ? await curvesOfRevisions(open.map((o) => o.revisionId)) : [];
   const filtered = sets.filter(

@@ -1,26 +1,22 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./projects.server";
+import { toCsv } from "./csv";
 
-const cell = (x: unknown) => {
-  if (x == null) return "";
-  const s = typeof x === "number" ? (Number.isFinite(x) ? String(+x.toPrecision(10)) : "") : String(x);
-  return /[",\n;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-};
-const row = (xs: unknown[]) => xs.map(cell).join(",");
+const row = (xs: unknown[]) => xs;
 
 /** Three sections, each with its own header row: system curve points, pump curve as used, and figures. SI units named in every header. */
 export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
-  const lines: string[] = [];
+  const lines: unknown[][] = [];
   lines.push(row(["# Dutymark selection export", `DM-${String(id).padStart(5, "0")}`, title]));
   lines.push(row(["# Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer."]));
-  lines.push("");
+  lines.push([]);
   lines.push(row(["section", "flow_m3s", "head_m", "head_low_m", "head_high_m", "pressure_pa", "npsha_m"]));
   const sc = f.systemCurve;
   if (sc) sc.flows.forEach((q, i) => lines.push(row(["system_curve", q, sc.design[i], sc.low[i], sc.high[i], sc.pressure[i], sc.npsha[i]?.y])));
-  lines.push("");
+  lines.push([]);
   lines.push(row(["section", "flow_m3s", "head_m", "efficiency", "shaft_power_w", "npshr_m"]));
   for (const p of f.result.curve) lines.push(row(["pump_curve", p.flow, p.head, p.efficiency, p.power, p.npshr]));
-  lines.push("");
+  lines.push([]);
   lines.push(row(["section", "figure", "value", "unit"]));
   const fig = f.result.figures;
   const add = (name: string, value: unknown, unit: string) => lines.push(row(["figures", name, value, unit]));
@@ -44,5 +40,5 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("library", f.pump.library.name, "");
   add("library_revision", f.pump.library.revision, "");
   add("model", f.pump.model, "");
-  return lines.join("\r\n") + "\r\n";
+  return toCsv(lines, { precision: 10 });
 }

@@ -1,9 +1,8 @@
-import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { can } from "~/lib/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks.server";
 import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
@@ -17,7 +16,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `Field check ${d
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
-  const c = await getFieldCheck(viewerOf(m), v.parse(IdField, params.id));
+  const c = await getFieldCheck(viewerOf(m), readId(params.id));
   const url = new URL(request.url);
   return {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },

@@ -4,7 +4,7 @@ import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/guards.server";
 import { analyseStored, getUpload, importUpload, UploadRejected } from "~/lib/libraries.server";
 import { blockLabel, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type Mapping, type NumericField } from "~/lib/import";
-import { IdField } from "~/lib/forms.server";
+import { readId, readFormSafe } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { curveLabel, fmtBytes } from "~/components/library-bits";
@@ -38,8 +38,8 @@ function summarise(analysis: ReturnType<typeof analyseStored>) {
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
   const viewer = { userId: m.user.id, workspace: m.workspace, role: m.role };
-  const libraryId = v.parse(IdField, params.id);
-  const uploadId = v.parse(IdField, params.uploadId);
+  const libraryId = readId(params.id);
+  const uploadId = readId(params.uploadId);
   const up = await getUpload(viewer, libraryId, uploadId);
   return { m, viewer, libraryId, uploadId, ...up };
 }
@@ -87,7 +87,7 @@ function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } 
 
 export async function action({ request, params }: Route.ActionArgs) {
   const c = await context(request, params);
-  const form = await request.formData();
+  const form = await readFormSafe(request);
   const { mapping, error } = mappingFromForm(form);
   if (!mapping) return { error };
   if (form.get("intent") === "import") {

@@ -1,10 +1,9 @@
-import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/selections.$id";
 import { requireMember } from "~/lib/guards.server";
 import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";
@@ -15,7 +14,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const s = await getSelection(viewerOf(m), id);
   return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name };
 }

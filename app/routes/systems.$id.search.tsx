@@ -1,10 +1,9 @@
-import * as v from "valibot";
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/guards.server";
 import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
 import { can } from "~/lib/permissions";
 import { toSI } from "~/engine";
@@ -17,7 +16,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark"
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const url = new URL(request.url);
   const sys = m.user.unitSystem as UnitSystem;
   const q = (k: string) => url.searchParams.get(k)?.trim() || "";
@@ -68,9 +67,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
-  const id = v.parse(IdField, params.id);
-  const form = await request.formData();
-  const curveSetId = v.parse(IdField, String(form.get("curveSetId")));
+  const id = readId(params.id);
+  const form = await readFormSafe(request);
+  const curveSetId = formId(form, "curveSetId");
   const method = form.get("method");
   const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
   const r = await addCandidate(viewerOf(m), id, curveSetId, adj);

@@ -8,7 +8,7 @@ import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem
 import { viewerOf } from "~/lib/viewer.server";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/permissions";
-import { IdField } from "~/lib/forms.server";
+import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { AdjustmentSchema } from "~/lib/hydraulics";
 import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, PIPE_TABLE_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
@@ -19,7 +19,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ??
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const bench = await systemWorkbench(viewerOf(m), id);
   return {
     id,
@@ -36,8 +36,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.read");
   const viewer = viewerOf(m);
-  const id = v.parse(IdField, params.id);
-  const form = await request.formData();
+  const id = readId(params.id);
+  const form = await readFormSafe(request);
   const intent = String(form.get("intent") ?? "save");
   const needs = intent === "select" ? "selection.write" : "project.write";
   if (!can(m.role, needs)) throw new Response(`Your role (${m.role}) cannot do this.`, { status: 403 });
@@ -55,10 +55,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "archive":
       throw redirect(`/projects/${await archiveSystem(viewer, id)}`);
     case "remove-candidate":
-      await removeCandidate(viewer, v.parse(IdField, String(form.get("candidateId"))));
+      await removeCandidate(viewer, formId(form, "candidateId"));
       return { errors: {}, notice: "Candidate removed." };
     case "adjust": {
-      const candidateId = v.parse(IdField, String(form.get("candidateId")));
+      const candidateId = formId(form, "candidateId");
       const ratioRaw = String(form.get("ratio") ?? "").trim();
       const motorRaw = Number(String(form.get("motorRating") ?? "").replace(",", ".") || 0);
       const adj = v.safeParse(AdjustmentSchema, {
@@ -75,7 +75,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       return { errors: {}, notice: "Candidate adjusted." };
     }
     case "select": {
-      const candidateId = v.parse(IdField, String(form.get("candidateId")));
+      const candidateId = formId(form, "candidateId");
       const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000));
       throw redirect(`/selections/${sid}`);
     }

@@ -58,6 +58,7 @@ export async function action({ request }: Route.ActionArgs) {
       await renameWorkspace(ws.id, f.name);
       return { notice: "Workspace renamed." };
     case "invite":
+      if (!base.user.emailVerified) return invalid({ _form: "Confirm your e-mail address before inviting people (the link is in your inbox; your account page sends a new one)." }, 403);
       await invite({ workspaceId: ws.id, workspaceName: ws.name, inviterId: base.user.id, inviterName: base.user.name, email: f.email, role: f.role });
       return { notice: `Invitation sent to ${f.email}.` };
     case "revoke-invite":
