@@ -10,7 +10,7 @@
  * is carried through the curve: flat curves give wide bands.
  * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed).
  */
-import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { EngineInputError, requireFinite, requireFiniteResult, requireInRange, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
@@ -42,6 +42,16 @@ export const TOLERANCE_GRADES: readonly ToleranceGrade[] = [
   { id: "2U", flow: [0, 0.16], head: [0, 0.1], powerAbove: 0.16, efficiencyBelow: 0.05, source: ISO },
   { id: "3B", flow: [0.09, 0.09], head: [0.07, 0.07], powerAbove: 0.09, efficiencyBelow: 0.07, source: ISO },
 ];
+
+/** Throws unless `grade` has flow and head tolerances as pairs of finite fractions in [0, 1]. */
+function checkGrade(grade: ToleranceGrade, name = "grade"): void {
+  if (!grade || typeof grade !== "object") throw new EngineInputError(name, "must be a tolerance grade");
+  for (const key of ["flow", "head"] as const) {
+    const pair = grade[key];
+    if (!Array.isArray(pair) || pair.length !== 2) throw new EngineInputError(`${name}.${key}`, "must be [below, above] fractions");
+    pair.forEach((v, i) => requireInRange(`${name}.${key}[${i}]`, v, 0, 1));
+  }
+}
 
 /** One pressure gauge. */
 export interface GaugeReading {
@@ -157,6 +167,9 @@ function curveFlowFor(c: PumpCurve, target: (q: number) => number): number | nul
  */
 export function withinGrade(curve: PumpCurve | PumpCurveInput, flow: number, head: number, grade: ToleranceGrade): boolean {
   const c = ensurePumpCurve(curve);
+  requireNonNegative("flow", flow);
+  requirePositive("head", head);
+  checkGrade(grade);
   const lo = Math.max(c.flowMin, flow / (1 + grade.flow[1]));
   const hi = grade.flow[0] >= 1 ? c.flowMax : Math.min(c.flowMax, flow / (1 - grade.flow[0]));
   if (lo > hi) return false;

@@ -295,6 +295,7 @@ export function searchDuty(
   const hd = requirePositive("duty.head", duty.head);
   const tol = requireNonNegative("headTolerance", options.headTolerance ?? 0.05);
   const methods = options.methods ?? ["direct", "trim", "speed"];
+  if (!Array.isArray(methods) || methods.some((m) => m !== "direct" && m !== "trim" && m !== "speed")) throw new EngineInputError("methods", "must list only 'direct', 'trim' and 'speed'");
   const law = options.trimLaw ?? "linear";
   if (law !== "linear" && law !== "square") throw new EngineInputError("trimLaw", "must be 'linear' or 'square'");
   const k = law === "linear" ? 1 : 2;
