@@ -10,6 +10,7 @@ import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import type { WorkbenchView } from "~/lib/workbench-view";
+import { resultFlowMax } from "~/lib/hydraulics";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -30,11 +31,12 @@ export default function SelectionReport() {
   const view: WorkbenchView = {
     evaluation: f.systemCurve,
     systemError: null,
-    flowMax: f.flowMax,
+    // The selected pump's own range (frozen curve and operating point) with the duty: never another candidate's.
+    flowMax: resultFlowMax(input, f.result),
     candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null }],
   };
   return (
-    <article className="mx-auto max-w-5xl space-y-5 print:max-w-none">
+    <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">
       <header className="flex flex-wrap items-start justify-between gap-3 border-b border-slate-300 pb-3">
         <div>
           <p className="no-print text-sm">
@@ -115,7 +117,8 @@ export default function SelectionReport() {
         </div>
       </section>
 
-      <section className="panel break-inside-avoid">
+      {/* May break between the chart and its tables when printed (the chart itself stays whole). */}
+      <section className="panel">
         <h2 className="font-semibold">Curves</h2>
         <WorkbenchChart view={view} unitSystem={sys} duty={input.duty} title={`${f.pump.label} on ${f.system.name}`} />
       </section>
