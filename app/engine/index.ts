@@ -56,8 +56,8 @@ export {
   type FiguresInput, type OperatingFigures,
 } from "./figures.ts";
 export {
-  fieldCheck, gaugeTdh, withinGrade, TOLERANCE_GRADES,
-  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type ToleranceGrade,
+  fieldCheck, gaugeTdh, gradeCross, withinGrade, TOLERANCE_GRADES,
+  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type GradeArm, type GradeCross, type ToleranceGrade,
 } from "./fieldCheck.ts";
 export {
   prepareSearchIndex, searchDuty,
