@@ -49,8 +49,9 @@ export function GradeTable({ highlight }: { highlight?: string }) {
         </tbody>
       </table>
       <p className="mt-1 text-xs text-slate-600">
-        A point passes a grade when some point of the curve at the measured speed lies within both tolerances of it. “At the tolerance limit”: outside the
-        grade as read, inside it within the gauges' and the flow meter's stated accuracy.
+        ISO 9906's tolerance cross: a point passes a grade when it meets either arm — its head within the head tolerance of the curve's head at the
+        measured flow (head arm), or its flow within the flow tolerance of the curve's flow at the measured head (flow arm), the curve taken at the
+        measured speed. “At the tolerance limit”: outside the grade as read, inside it within the gauges' and the flow meter's stated accuracy.
       </p>
     </details>
   );

@@ -8,7 +8,8 @@
  * tolerance grades. Without: flow is inferred where the curve meets the measured TDH, and a
  * band from the gauge accuracy (root-sum-square of both gauges, as independent errors)
  * is carried through the curve: flat curves give wide bands.
- * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed).
+ * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed); a point meets a
+ * grade on either arm of the standard's tolerance cross (gradeCross).
  */
 import { EngineInputError, requireFinite, requireFiniteResult, requireInRange, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";

@@ -171,7 +171,7 @@ export default function SelectionReport() {
         <h2 className="font-semibold">Methods and assumptions</h2>
         <ul className="mt-2 list-disc space-y-1 pl-5">
           <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
-          <li>Fittings: K = n·fT after Crane Technical Paper No. 410 (fT for clean commercial steel at full turbulence); entrance 0.5 and exit 1.0 (common practice).</li>
+          <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
           <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
           <li>System band: least and most static lift × new and aged pipe roughness.</li>
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
