@@ -9,21 +9,22 @@ test("A selection report prints on two pages with its curve table, scaled to the
   // Work on a copy of the demo chilled-water project (three candidates), so the demo stays as seeded.
   await page.goto("/projects/1");
   await page.getByRole("button", { name: "Copy project" }).click();
-  await expect(page.getByRole("heading", { name: /\(copy\)/ })).toBeVisible();
+  await expect(page.getByRole("heading", { name: /\(copy\)/ })).toBeVisible({ timeout: 20_000 });
   await page.locator("a[href^='/systems/']").first().click();
-  await expect(page).toHaveURL(/\/systems\/\d+$/);
+  await expect(page).toHaveURL(/\/systems\/\d+$/, { timeout: 20_000 });
 
   // Second candidate: four pumps in parallel (the case that used to stretch every scale).
   const second = page.locator("form:has(select[name=arrangement])").nth(1);
   await second.locator("select[name=arrangement]").selectOption("parallel");
   await second.locator("input[name=dutyPumps]").fill("4");
   await second.getByRole("button", { name: "Apply" }).click();
-  await expect(page.getByText("Candidate adjusted.")).toBeVisible();
+  // Generous waits after each form post: the test machine is shared and busy.
+  await expect(page.getByText("Candidate adjusted.")).toBeVisible({ timeout: 20_000 });
   await expect(page.getByRole("table", { name: "Candidates compared" })).toContainText("4 in parallel");
 
   await page.getByRole("button", { name: "Select this pump" }).first().click();
-  await expect(page).toHaveURL(/\/selections\/\d+$/);
-  await expect(page.getByText("Pump selection report")).toBeVisible();
+  await expect(page).toHaveURL(/\/selections\/\d+$/, { timeout: 20_000 });
+  await expect(page.getByText("Pump selection report")).toBeVisible({ timeout: 20_000 });
 
   // The printed curve table: rows beyond the selected pump's curve (every pump cell "—") are at most two.
   await page.emulateMedia({ media: "print" });
