@@ -28,8 +28,8 @@ export {
   type Regime, type FrictionResult, type LossModel, type PipeLossInput, type PipeLossResult,
 } from "./headLoss.ts";
 export {
-  FITTINGS, CRANE_FT, fitting, fittingK, fittingFrictionFactor, sumK, suddenEnlargementK, suddenContractionK,
-  type FittingDef, type FittingUse, type KModel,
+  FITTINGS, CRANE_FT, CRANE_FT_RANGE, TEE_BRANCH_K_2009, fitting, fittingK, fittingKDetailed, fittingFrictionFactor, sumK, sumKDetailed,
+  suddenEnlargementK, suddenContractionK, type FittingDef, type FittingUse, type FittingKResult, type KModel, type SizeBand,
 } from "./fittings.ts";
 export {
   prepareSystem, systemHead, systemHeadFunction, systemCurve, suctionLoss,
@@ -56,8 +56,8 @@ export {
   type FiguresInput, type OperatingFigures,
 } from "./figures.ts";
 export {
-  fieldCheck, gaugeTdh, withinGrade, TOLERANCE_GRADES,
-  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type ToleranceGrade,
+  fieldCheck, gaugeTdh, gradeCross, withinGrade, TOLERANCE_GRADES,
+  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type GradeArm, type GradeCross, type ToleranceGrade,
 } from "./fieldCheck.ts";
 export {
   prepareSearchIndex, searchDuty,

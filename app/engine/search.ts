@@ -295,6 +295,7 @@ export function searchDuty(
   const hd = requirePositive("duty.head", duty.head);
   const tol = requireNonNegative("headTolerance", options.headTolerance ?? 0.05);
   const methods = options.methods ?? ["direct", "trim", "speed"];
+  if (!Array.isArray(methods) || methods.some((m) => m !== "direct" && m !== "trim" && m !== "speed")) throw new EngineInputError("methods", "must list only 'direct', 'trim' and 'speed'");
   const law = options.trimLaw ?? "linear";
   if (law !== "linear" && law !== "square") throw new EngineInputError("trimLaw", "must be 'linear' or 'square'");
   const k = law === "linear" ? 1 : 2;
@@ -340,7 +341,7 @@ export function searchDuty(
       }
     }
     if (method === null) continue;
-    const qOrig = qd / Math.pow(ratio, kk); // flow on the original curve that maps to the duty flow
+    const qOrig = Math.min(fMax[e], qd / Math.pow(ratio, kk)); // flow on the original curve that maps to the duty flow (rounding at the end clamped)
     const headAtDuty = method === "direct" ? (h1 as number) : hd;
     const eff = evalPacked(idx.eff, e, qOrig);
     const bepQ = idx.bepFlow[e] < 0 ? null : idx.bepFlow[e] * Math.pow(ratio, kk);
@@ -399,11 +400,13 @@ function solveScale(idx: SearchIndex, e: number, qd: number, hd: number, k: numb
   const sMin = Math.max(lo, k === 1 ? qd / qMax : Math.sqrt(qd / qMax));
   const sMax = qMin > 0 ? Math.min(hi, k === 1 ? qd / qMin : Math.sqrt(qd / qMin)) : hi;
   if (!(sMin <= sMax)) return null;
-  const f = (s: number) => s * s * (evalPacked(idx.head, e, qd / (k === 1 ? s : s * s)) ?? 0) - hd;
+  // Qd/s^k is on the curve for s in [sMin, sMax] up to rounding: clamp it onto the curve (an
+  // evaluation past the end by one ulp used to read as head 0 and return a false root at sMin).
+  const f = (s: number) => s * s * (evalPacked(idx.head, e, Math.min(qMax, Math.max(qMin, qd / (k === 1 ? s : s * s)))) ?? 0) - hd;
   const fHi = f(sMax);
-  if (fHi === 0) return sMax;
+  if (Math.abs(fHi) <= 1e-9 * hd) return sMax;
   const fLo = f(sMin);
-  if (fLo === 0) return sMin;
+  if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
   if (fLo * fHi < 0) {
     const r = brent(f, sMin, sMax, 1e-12);
     return r ? r.x : null;

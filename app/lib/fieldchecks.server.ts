@@ -545,6 +545,7 @@ export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string 
       "check_id", "chain_id", "version", "superseded", "recorded_at", "recorded_by", "workspace", "verdict", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
+      "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "notes",
     ]),
   ];
@@ -555,6 +556,7 @@ export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string 
         c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
+        c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
         r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, c.notes,
       ]),
     );

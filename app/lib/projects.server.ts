@@ -13,6 +13,7 @@ import {
   evaluateCandidate,
   evaluateSystem,
   flowMaxOf,
+  candidatesFlowMax,
   SystemInputSchema,
   toPumpPoints,
   type Adjustment,
@@ -257,8 +258,7 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   const stored = await getSystem(viewer, systemId);
   const system = inputOverride ? { ...stored, input: inputOverride } : stored;
   const cands = await listCandidates(viewer, systemId);
-  const pumpMax = Math.max(0, ...cands.map((c) => c.set.points[c.set.points.length - 1]?.flow ?? 0));
-  const flowMax = flowMaxOf(system.input, pumpMax * (cands.some((c) => c.adjustment.arrangement === "parallel") ? Math.max(...cands.map((c) => c.adjustment.dutyPumps)) : 1));
+  const flowMax = flowMaxOf(system.input, candidatesFlowMax(cands));
   let evaluation: ReturnType<typeof evaluateSystem> | null = null;
   let systemError: string | null = null;
   try {

@@ -9,6 +9,7 @@ import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import type { WorkbenchView } from "~/lib/workbench-view";
+import { resultFlowMax } from "~/lib/hydraulics";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -29,11 +30,12 @@ export default function SelectionReport() {
   const view: WorkbenchView = {
     evaluation: f.systemCurve,
     systemError: null,
-    flowMax: f.flowMax,
+    // The selected pump's own range (frozen curve and operating point) with the duty: never another candidate's.
+    flowMax: resultFlowMax(input, f.result),
     candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null }],
   };
   return (
-    <article className="mx-auto max-w-5xl space-y-5 print:max-w-none">
+    <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">
       <header className="flex flex-wrap items-start justify-between gap-3 border-b border-slate-300 pb-3">
         <div>
           <p className="no-print text-sm">
@@ -114,7 +116,8 @@ export default function SelectionReport() {
         </div>
       </section>
 
-      <section className="panel break-inside-avoid">
+      {/* May break between the chart and its tables when printed (the chart itself stays whole). */}
+      <section className="panel">
         <h2 className="font-semibold">Curves</h2>
         <WorkbenchChart view={view} unitSystem={sys} duty={input.duty} title={`${f.pump.label} on ${f.system.name}`} />
       </section>
@@ -167,7 +170,7 @@ export default function SelectionReport() {
         <h2 className="font-semibold">Methods and assumptions</h2>
         <ul className="mt-2 list-disc space-y-1 pl-5">
           <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
-          <li>Fittings: K = n·fT after Crane Technical Paper No. 410 (fT for clean commercial steel at full turbulence); entrance 0.5 and exit 1.0 (common practice).</li>
+          <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
           <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
           <li>System band: least and most static lift × new and aged pipe roughness.</li>
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
