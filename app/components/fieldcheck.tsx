@@ -5,7 +5,7 @@ import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { VERDICT_TEXT, type Verdict } from "~/lib/fieldcheck-form";
-import type { CheckResult } from "~/lib/fieldchecks.server";
+import type { CheckResult } from "~/lib/fieldcheck-result";
 import { fmtFlow, fmtHead, type UnitSystem } from "./units";
 
 export function FieldCaution() {
