@@ -3,7 +3,7 @@
 import type { FieldCheckResult } from "~/engine";
 import type { Verdict } from "./fieldcheck-form";
 
-type Pt = { flow: number; y: number };
+export type Pt = { flow: number; y: number };
 
 export type CheckResult = {
   format: string;

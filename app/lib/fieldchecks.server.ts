@@ -34,7 +34,7 @@ import { sendMail } from "./mail.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "./mail-templates";
 import { appUrl } from "./accounts.server";
 import { toCsv } from "./csv";
-import type { CheckResult } from "./fieldcheck-result";
+import type { CheckResult, Pt } from "./fieldcheck-result";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 export { DEFAULT_GRADE, MAX_PHOTOS, MAX_PHOTO_BYTES, VERDICT_TEXT, type Verdict } from "./fieldcheck-form";
