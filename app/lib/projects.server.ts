@@ -314,7 +314,7 @@ const SEARCH_SHOWN = 50;
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
   const system = await getSystem(viewer, systemId);
   const { open, locked } = await searchableRevisions(viewer);
-  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, message: "Set a duty point (flow and head) first." };
+  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
   const evaluation = evaluateSystem(system.input);
   const dutyHead = system.input.duty.head;
   const sets: (LibraryCurveSet & { libraryId: number; library: string })[] = [];
@@ -366,12 +366,12 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   let outsideCatalogue = 0;
   const kept: { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[]; verdict: Verdict | null }[] = [];
   for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
-    let verdict: Verdict | null = null;
+    let verdict: Verdict | null;
     try {
       const adj = { ...DEFAULT_ADJUSTMENT, method: g.row.method === "direct" ? "none" : g.row.method, ratio: g.row.method === "direct" ? null : g.row.ratio } as Adjustment;
       verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
     } catch {
-      verdict = null;
+      verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
     }
     if (verdict?.status === "outside-catalogue") {
       outsideCatalogue++;
@@ -393,7 +393,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     alsoIn: libraries.filter((l) => l !== s.library),
     verdict,
   }));
-  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, message: null as string | null };
+  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
 }
 
 const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
