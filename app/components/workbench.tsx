@@ -173,7 +173,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
             {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}` : "—"}
             {f.motorLimit != null ? ` · ${yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load` : ""}
           </div>
-          <div className="text-xs text-slate-600">Suggested {mo.suggestedRating != null ? fmtPower(unitSystem, mo.suggestedRating) : "—"}: {mo.suggestionBasis}.</div>
+          <div className="text-xs text-slate-600">Suggested: {mo.suggestionBasis}.</div>
         </div>
       );
     }],

@@ -385,9 +385,9 @@ export function searchDuty(
 /** What a row is, in words (how it meets the duty and its figures). */
 function describe(c: Candidate, reqMargin: number): string {
   const parts: string[] = [];
-  parts.push(c.method === "direct" ? `meets the duty directly (${c.headAtDuty.toFixed(1)} m at duty flow)`
-    : c.method === "trim" ? `meets the duty trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${(c.diameter * 1000).toFixed(0)} mm)` : ""}`
-    : `meets the duty at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
+  parts.push(c.method === "direct" ? `reaches the duty point as published (${c.headAtDuty.toFixed(1)} m at duty flow)`
+    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${(c.diameter * 1000).toFixed(0)} mm)` : ""}`
+    : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
   parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
   if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
   if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);

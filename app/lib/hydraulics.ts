@@ -453,7 +453,7 @@ export function evaluateCandidate(
       serviceFactor: adj.serviceFactor,
       ieClass: adj.ieClass ?? DEFAULT_IE_CLASS,
       speedDrive: adj.method === "speed",
-      ratedSpeed: opts.catalogue?.ratedSpeed ?? set.speed,
+      ratedSpeed: set.speed ?? opts.catalogue?.ratedSpeed ?? null, // the curve's own speed sets the motor's poles
       hoursPerYear: input.hoursPerYear,
       tariffPerKWh: input.tariffPerKWh,
       currency: opts.currency ?? "",
