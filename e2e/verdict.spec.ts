@@ -12,10 +12,11 @@ test("Lengthening the discharge run turns a fixed-speed candidate's verdict from
   await expect(page.getByRole("heading", { name: "CHW secondary loop" })).toBeVisible();
   // Work on a copy: the demo system stays as seeded for the other journeys.
   await page.getByRole("button", { name: "Copy system" }).click();
-  await expect(page.getByRole("heading", { name: "CHW secondary loop (copy)" })).toBeVisible();
+  // (Generous waits: the browser tests share a busy machine; nothing here measures speed.)
+  await expect(page.getByRole("heading", { name: "CHW secondary loop (copy)" })).toBeVisible({ timeout: 20_000 });
 
   const verdicts = page.locator("[data-testid^=verdict-]");
-  await expect(verdicts).toHaveCount(4);
+  await expect(verdicts).toHaveCount(4, { timeout: 20_000 });
   const before = await verdicts.evaluateAll((els) => els.map((e) => ({ id: e.getAttribute("data-testid")!, status: e.getAttribute("data-status") })));
   expect(before.every((v) => v.status === "meets")).toBe(true);
   await expect(page.getByTestId("duty-check")).toHaveAttribute("data-differs", "no");
@@ -28,7 +29,7 @@ test("Lengthening the discharge run turns a fixed-speed candidate's verdict from
   await length.fill("540");
   await expect(page.getByText("Chart shows unsaved changes")).toBeVisible();
   // The fixed-speed candidate (and any that cannot re-solve against the longer pipe) turns short.
-  await expect(page.locator("[data-testid^=verdict-][data-status=short]").first()).toBeVisible();
+  await expect(page.locator("[data-testid^=verdict-][data-status=short]").first()).toBeVisible({ timeout: 20_000 });
   const shortId = await page.locator("[data-testid^=verdict-][data-status=short]").first().getAttribute("data-testid");
   expect(before.map((v) => v.id)).toContain(shortId);
   const cell = page.getByTestId(shortId!);
@@ -39,9 +40,9 @@ test("Lengthening the discharge run turns a fixed-speed candidate's verdict from
 
   // Saved, the server renders the same verdict.
   await page.getByRole("button", { name: "Save system" }).click();
-  await expect(page.getByText("System saved.")).toBeVisible();
+  await expect(page.getByText("System saved.")).toBeVisible({ timeout: 20_000 });
   await page.reload();
-  await expect(page.getByTestId(shortId!)).toHaveAttribute("data-status", "short");
+  await expect(page.getByTestId(shortId!)).toHaveAttribute("data-status", "short", { timeout: 20_000 });
 });
 
 test.describe("without JavaScript", () => {
@@ -55,7 +56,7 @@ test.describe("without JavaScript", () => {
     await page.getByRole("link", { name: "Harbourside Offices — chilled water" }).click();
     await page.getByRole("link", { name: "CHW secondary loop", exact: true }).click();
     await page.getByRole("link", { name: "Find pumps for this duty" }).click();
-    await expect(page.getByRole("table", { name: "Ranked pumps" })).toBeVisible();
+    await expect(page.getByRole("table", { name: "Ranked pumps" })).toBeVisible({ timeout: 20_000 });
     await expect(page.getByTestId("search-stats")).toContainText("outside the catalogue hidden");
     await expect(page.locator("[data-testid^=search-verdict-][data-status=outside-catalogue]")).toHaveCount(0);
     await page.getByLabel("allow beyond the catalogue").check();

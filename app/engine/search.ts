@@ -425,14 +425,15 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
  * @param rows ranked candidates (SI figures; rank and reason are rewritten)
  * @param total how many met the duty in all (count)
  * @param reqMargin required NPSH margin ratio (dimensionless)
+ * @param notes per row, a comparison with the row above that replaces the score comparison (unitless text; null: compare figures)
  */
-export function explainRanks(rows: Candidate[], total: number, reqMargin: number): Candidate[] {
+export function explainRanks(rows: Candidate[], total: number, reqMargin: number, notes: readonly (string | null)[] = []): Candidate[] {
   rows.forEach((c, i) => {
     c.rank = i + 1;
     const what = describe(c, reqMargin);
     c.reason = i === 0
       ? `#1 of ${total}: ${what}; highest score ${c.score.toFixed(3)} (efficiency less penalties for distance from BEP, thin NPSH margin and extra power)`
-      : `#${c.rank} of ${total}: ${what}; ${compareWithAbove(rows[i - 1], c)}`;
+      : `#${c.rank} of ${total}: ${what}; ${notes[i] ?? compareWithAbove(rows[i - 1], c)}`;
   });
   return rows;
 }

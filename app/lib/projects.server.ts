@@ -5,7 +5,7 @@ import { data } from "react-router";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
-import { explainRanks, prepareSearchIndex, searchDuty, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type Verdict } from "~/engine";
+import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type Verdict } from "~/engine";
 import { workspaceCurrency } from "./accounts.server";
 import {
   AdjustmentSchema,
@@ -303,7 +303,7 @@ function curveKey(s: LibraryCurveSet): string {
 }
 
 /** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
-const SEARCH_EVALUATED = 120;
+const SEARCH_EVALUATED = 80;
 const SEARCH_SHOWN = 50;
 
 /**
@@ -362,13 +362,13 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     const mine = (x: typeof s) => libraryOwnedBy(x.libraryId, viewer);
     if (Math.abs(c.score - g.row.score) < 1e-12 && (await mine(s)) && !(await mine(g.set))) { g.row = c; g.set = s; }
   }
-  // Verdict of each pump as offered (its method and ratio) on the system's band.
+  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
   let outsideCatalogue = 0;
   const kept: { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[]; verdict: Verdict | null }[] = [];
   for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
     let verdict: Verdict | null;
     try {
-      const adj = { ...DEFAULT_ADJUSTMENT, method: g.row.method === "direct" ? "none" : g.row.method, ratio: g.row.method === "direct" ? null : g.row.ratio } as Adjustment;
+      const adj = { ...DEFAULT_ADJUSTMENT, method: g.row.method === "direct" ? "none" : g.row.method } as Adjustment;
       verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
     } catch {
       verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
@@ -379,8 +379,15 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     }
     kept.push({ ...g, verdict });
   }
+  // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
+  kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
   const shown = kept.slice(0, SEARCH_SHOWN);
-  explainRanks(shown.map((k) => k.row), kept.length, system.input.npshMargin);
+  const notes = shown.map((k, i) => {
+    if (i === 0 || verdictClass(k.verdict) === verdictClass(shown[i - 1].verdict)) return null;
+    const above = shown[i - 1].verdict;
+    return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
+  });
+  explainRanks(shown.map((k) => k.row), kept.length, system.input.npshMargin, notes);
   const results = shown.map(({ row: c, set: s, libraries, verdict }) => ({
     ...c,
     curveSetId: s.id,
@@ -395,6 +402,9 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   }));
   return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
 }
+
+const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
+const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
 
 const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
 async function libraryOwnedBy(libraryId: number, viewer: Viewer): Promise<boolean> {
