@@ -158,9 +158,10 @@ export async function seedProjects(): Promise<number> {
   let made = 0;
   for (const d of demos) {
     if (have.some((p) => p.name === d.project.name)) continue;
-    // The duty head is the design system curve at the duty flow (nominal level, new pipe), rounded up.
+    // The duty head is the system's head at the duty flow at the band's demanding edge (most lift,
+    // aged pipe: where the verdicts are judged), rounded up to 0.5 m.
     const ev = evaluateSystem(d.input, { flowMax: d.input.duty!.flow, points: 2 });
-    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.design[1] * 2) / 2 } };
+    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.high[1] * 2) / 2 } };
     const projectId = await createProject(v, d.project);
     const systemId = await createSystem(v, projectId, d.system, input);
     const found = await searchForSystem(v, systemId);
@@ -169,6 +170,12 @@ export async function seedProjects(): Promise<number> {
     for (const r of picks) {
       const added = await addCandidate(v, systemId, r.curveSetId, { ...DEFAULT_ADJUSTMENT, method: r.method === "direct" ? "none" : r.method });
       if (added.ok) ids.push(added.id);
+    }
+    // No pump meets the duty as published: one more candidate held at a fixed drive speed (the
+    // search's speed rounded up to the next whole percent), as an engineer would set a drive.
+    if (!picks.some((r) => r.method === "direct")) {
+      const fixed = found.results.find((r) => r.method === "speed" && !picks.some((p) => p.curveSetId === r.curveSetId));
+      if (fixed) await addCandidate(v, systemId, fixed.curveSetId, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: Math.ceil(fixed.ratio * 100 + 0.5) / 100 });
     }
     if (ids[0]) await selectCandidate(v, ids[0], "", "Demo selection: best-ranked candidate, adjusted to the duty.");
     made++;

@@ -60,6 +60,15 @@ export {
   type FieldCheckInput, type FieldCheckResult, type GaugeReading, type GradeArm, type GradeCross, type ToleranceGrade,
 } from "./fieldCheck.ts";
 export {
-  prepareSearchIndex, searchDuty,
+  prepareSearchIndex, searchDuty, explainRanks,
   type CurveSet, type SearchIndex, type SearchOptions, type Candidate, type SearchResult,
 } from "./search.ts";
+export {
+  judgeCandidate, catalogueReasons, verdictLabel, VERDICT_STATUSES, DEFAULT_FLOW_TOLERANCE, DEFAULT_SPEED_RANGE, VERDICT_ROUNDOFF,
+  type Verdict, type VerdictStatus, type VerdictInput, type BandEdge, type CatalogueLimits, type FlowTolerance, type SavingOption,
+} from "./verdict.ts";
+export {
+  IEC_MOTOR_RATINGS_KW, MOTOR_RATINGS_SOURCE, IE_CLASSES, DEFAULT_IE_CLASS, DEFAULT_DRIVE_EFFICIENCY, MOTOR_EFFICIENCY_SOURCE, IE_EFFICIENCY_TABLE,
+  nextStandardRating, suggestMotor, motorEfficiency, polesForSpeed, annualEnergy,
+  type IeClass, type MotorSuggestion, type EnergyFigures,
+} from "./motor.ts";

@@ -208,6 +208,16 @@ export async function createWorkspace(userId: string, name: string): Promise<num
   });
 }
 
+/** ISO 4217 currency code of the workspace's tariffs and energy costs (EUR when unset). */
+export async function workspaceCurrency(workspaceId: number): Promise<string> {
+  const [w] = await db().select({ currency: workspaces.currency }).from(workspaces).where(eq(workspaces.id, workspaceId));
+  return w?.currency ?? "EUR";
+}
+
+export async function setWorkspaceCurrency(workspaceId: number, currency: string): Promise<void> {
+  await db().update(workspaces).set({ currency: currency.toUpperCase() }).where(eq(workspaces.id, workspaceId));
+}
+
 export async function renameWorkspace(workspaceId: number, name: string): Promise<void> {
   await db().update(workspaces).set({ name: name.trim() }).where(eq(workspaces.id, workspaceId));
 }

@@ -331,6 +331,10 @@ export type LibraryCurveSet = {
   nominalSize: string;
   speed: number | null;
   impellerDiameter: number | null;
+  /** What the model publishes across its curve sets (m, m, rpm; null when not given): the catalogue limits of the verdict. */
+  impellerMin: number | null;
+  impellerMax: number | null;
+  ratedSpeed: number | null;
   points: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
 };
 
@@ -393,6 +397,9 @@ async function loadCurves(revisionIds: number[], curveSetIds?: number[]): Promis
       nominalSize: s.model.nominalSize,
       speed: s.set.speed,
       impellerDiameter: s.set.impellerDiameter,
+      impellerMin: s.model.impellerMin,
+      impellerMax: s.model.impellerMax,
+      ratedSpeed: s.model.ratedSpeed,
       points: [],
     });
   }

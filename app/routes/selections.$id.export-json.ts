@@ -7,7 +7,7 @@ import { readId } from "~/lib/forms.server";
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const s = await getSelection(viewerOf(m), readId(params.id));
-  const body = { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), units: "SI (m3/s, m, Pa, W, kg/m3)", ...s.frozen };
+  const body = { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), units: "SI (m3/s, m, Pa, W, kg/m3)", verdict: s.frozen.result.verdict ?? null, ...s.frozen };
   return new Response(JSON.stringify(body, null, 2), {
     headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.json"` },
   });

@@ -4,7 +4,7 @@ import { requireMember } from "~/lib/guards.server";
 import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { readId } from "~/lib/forms.server";
-import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
+import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
@@ -60,6 +60,24 @@ export default function SelectionReport() {
       <SizingCaution />
       {d.note ? <p className="text-sm">{d.note}</p> : null}
 
+      <section className="panel break-inside-avoid">
+        <h2 className="font-semibold">Verdict</h2>
+        {f.result.verdict === undefined ? (
+          <p className="text-sm text-slate-600" data-testid="report-verdict" data-status="not-judged">
+            Selected before Dutymark judged candidates: no verdict was frozen with this report.
+          </p>
+        ) : (
+          <div className="mt-1 text-sm">
+            <VerdictView verdict={f.result.verdict} testId="report-verdict" />
+          </div>
+        )}
+        {f.systemCurve?.dutyCheck ? (
+          <p className={`mt-2 text-xs ${f.systemCurve.dutyCheck.differs ? "text-duty-ink" : "text-slate-600"}`}>
+            {f.systemCurve.dutyCheck.message} {f.systemCurve.dutyCheck.governs}
+          </p>
+        ) : null}
+      </section>
+
       <section className="grid gap-4 md:grid-cols-2">
         <div className="panel">
           <h2 className="font-semibold">Duty and result</h2>
@@ -110,7 +128,7 @@ export default function SelectionReport() {
             </dd>
             <dt className="text-slate-600">Operation</dt>
             <dd>
-              {input.hoursPerYear} h/year at {input.tariffPerKWh} per kWh; NPSH margin wanted {input.npshMargin}
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance −{fmtNum((input.flowTolerance?.minus ?? 0) * 100, 0)} %/+{fmtNum((input.flowTolerance?.plus ?? 0.1) * 100, 0)} %
             </dd>
           </dl>
         </div>
@@ -176,6 +194,8 @@ export default function SelectionReport() {
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
           <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>
           <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
+          <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
+          <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
           <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {f.frozenAt.slice(0, 16).replace("T", " ")} UTC; later library changes do not alter this report.</li>
         </ul>
       </section>
