@@ -63,9 +63,14 @@ describe("GET /api/v1/systems/:id", () => {
     expect(body.candidates).toHaveLength(1);
     const c = body.candidates[0];
     expect(c.library).toBe(LIB);
-    expect(c.result!.operating!.flow).toBeCloseTo(40 / 3600, 6); // speed solved to the duty flow (our rule)
-    // The verdict (added by the verdict work) is passed through untouched when present.
+    // Speed solved so the demanding edge of the system band delivers the duty flow (our rule since the band verdict).
+    const band = (c.result as { band?: { flow: number | null }[] }).band ?? [];
+    expect(Math.min(...band.map((b) => b.flow ?? Infinity))).toBeCloseTo(40 / 3600, 6);
+    // Each candidate carries the engine's verdict (issue 13: meets/short/oversized/outside-catalogue/no-operating-point).
     expect(c.result).toEqual(expected.candidates[0].result);
+    const verdict = (c.result as { verdict?: { status: string; rule: string; reasons: string[] } }).verdict;
+    expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain(verdict?.status);
+    expect(verdict!.rule.length).toBeGreaterThan(0);
   });
 
   test("bad id → 400, unknown id → 404, another workspace's token → 404; all problem+json; POST → 405", async () => {
@@ -106,9 +111,10 @@ describe("GET /api/v1/systems/:id/search", () => {
       if (x.adjustment.kind === "none") expect(x.adjustment.ratio).toBe(1);
       expect(x.figures.headAtDuty).toBeGreaterThanOrEqual(38 * 0.999); // meets the duty head (search rule)
       expect(x.figures.efficiency).toBe(p.efficiency);
-      expect("verdict" in x).toBe(true);
       const pv = (p as { verdict?: unknown }).verdict;
-      expect(x.verdict).toEqual(pv === undefined ? null : JSON.parse(JSON.stringify(pv)));
+      expect(pv).toBeDefined();
+      expect(x.verdict).toEqual(JSON.parse(JSON.stringify(pv)));
+      expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain((x.verdict as { status: string }).status);
     }
   });
 
