@@ -77,9 +77,12 @@ const securityHeaders = helmet({
   xPoweredBy: false,
 });
 
-/** After a 413, what the client still sends is read and dropped for a moment (so it can read the answer), then the connection goes. */
-const LINGER_BYTES = 4 * 1024 * 1024;
-const LINGER_MS = 2000;
+/**
+ * After a 413, what the client still sends is read and dropped — never kept — so the client (or a
+ * proxy in front) can read the answer; past LINGER_BYTES or LINGER_MS the connection goes.
+ */
+const LINGER_BYTES = 64 * 1024 * 1024;
+const LINGER_MS = 30_000;
 
 function tooLarge(req, res, limit, seen) {
   res.locals.tooLarge = true;
@@ -96,7 +99,7 @@ function tooLarge(req, res, limit, seen) {
   const pathname = (req.originalUrl ?? req.url ?? "").split("?")[0];
   const detail = `The request is too large: the limit here is ${limit} bytes (${seen} read or declared).`;
   const api = pathname.startsWith("/api/");
-  res.writeHead(413, { "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", Connection: "close", "Cache-Control": "no-store" });
+  res.writeHead(413, { "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", "Cache-Control": "no-store" });
   res.end(api ? JSON.stringify({ type: "about:blank", title: "Content Too Large", status: 413, detail }) : detail);
   setTimeout(() => req.socket?.destroy(), LINGER_MS).unref();
 }

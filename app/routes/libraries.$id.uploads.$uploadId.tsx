@@ -1,46 +1,32 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/guards.server";
-import { analyseStored, getUpload, importUpload, UploadRejected } from "~/lib/libraries.server";
+import { importUpload, UploadRejected } from "~/lib/libraries.server";
+import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
+import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
+import type { UploadSummary } from "~/lib/upload-analysis";
 import { blockLabel, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type Mapping, type NumericField } from "~/lib/import";
 import { readId, readFormSafe } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
-import { curveLabel, fmtBytes } from "~/components/library-bits";
+import { fmtBytes } from "~/components/library-bits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
-const PROBLEM_ROWS_SHOWN = 300;
-const PREVIEW_CURVES = 12;
-
-function summarise(analysis: ReturnType<typeof analyseStored>) {
-  const { result, sniff, mapping } = analysis;
-  const problems = result.problems;
-  return {
-    sniff: { delimiter: sniff.delimiter === "\t" ? "tab" : sniff.delimiter, decimalComma: sniff.decimalComma, headerLine: sniff.headerLine, hadBom: sniff.hadBom },
-    headers: sniff.headers,
-    samples: sniff.headers.map((_, i) => analysis.rows.slice(0, 3).map((r) => r.cells[i] ?? "")),
-    mapping,
-    mappingSource: analysis.mappingSource,
-    stats: result.stats,
-    problems: problems.slice(0, PROBLEM_ROWS_SHOWN),
-    problemCount: problems.length,
-    curveSets: result.curveSets.map((c) => ({ key: c.key, model: c.model, speed: c.speed, impellerDiameter: c.impellerDiameter, points: c.points.length, ok: c.ok })),
-    preview: result.curveSets.slice(0, PREVIEW_CURVES).map((c) => ({
-      id: c.key,
-      label: `${c.model} ${curveLabel(c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,
-      points: c.points.map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
-    })),
-  };
-}
+/** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
+const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
+  summariseUpload(c.upload, () => uploadBytes(c.upload.id), c.lib.mappingJson, mapping).catch((e) => {
+    if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
+    throw e;
+  });
 
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
   const viewer = { userId: m.user.id, workspace: m.workspace, role: m.role };
   const libraryId = readId(params.id);
   const uploadId = readId(params.uploadId);
-  const up = await getUpload(viewer, libraryId, uploadId);
+  const up = await getUploadMeta(viewer, libraryId, uploadId);
   return { m, viewer, libraryId, uploadId, ...up };
 }
 
@@ -50,7 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256 },
     unitSystem: c.m.user.unitSystem,
-    ...summarise(analyseStored(c.text, c.lib)),
+    ...(await analysis(c)),
   };
 }
 
@@ -95,11 +81,11 @@ export async function action({ request, params }: Route.ActionArgs) {
       const r = await importUpload(c.viewer, c.libraryId, c.uploadId, mapping, String(form.get("note") ?? ""));
       throw redirect(`/libraries/${c.libraryId}?imported=${r.number}`);
     } catch (e) {
-      if (e instanceof UploadRejected) return { error: e.message, ...summarise(analyseStored(c.text, c.lib, mapping)) };
+      if (e instanceof UploadRejected) return { error: e.message, ...(await analysis(c, mapping)) };
       throw e;
     }
   }
-  return summarise(analyseStored(c.text, c.lib, mapping));
+  return analysis(c, mapping);
 }
 
 const FIELD_LABEL: Record<string, string> = {
@@ -119,7 +105,7 @@ const FIELD_LABEL: Record<string, string> = {
 
 export default function UploadPreview() {
   const l = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as (Partial<ReturnType<typeof summarise>> & { error?: string }) | undefined;
+  const a = useActionData<typeof action>() as (Partial<UploadSummary> & { error?: string }) | undefined;
   const d = { ...l, ...(a && "mapping" in a && a.mapping ? a : {}) } as typeof l;
   const bad = d.stats.curveSets - d.stats.curveSetsOk;
   return (
