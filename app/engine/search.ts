@@ -429,6 +429,9 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
  * @param notes per row, a comparison with the row above that replaces the score comparison (unitless text; null: compare figures)
  */
 export function explainRanks(rows: Candidate[], total: number, reqMargin: number, notes: readonly (string | null)[] = []): Candidate[] {
+  if (!Array.isArray(rows)) throw new EngineInputError("rows", "must be an array of ranked candidates");
+  if (!Number.isInteger(requireNonNegative("total", total)) || total < rows.length) throw new EngineInputError("total", "must be a whole count, at least the number of rows");
+  requirePositive("reqMargin", reqMargin);
   rows.forEach((c, i) => {
     c.rank = i + 1;
     const what = describe(c, reqMargin);

@@ -226,5 +226,6 @@ export function verdictLabel(status: VerdictStatus): string {
     case "oversized": return "oversized";
     case "outside-catalogue": return "outside the catalogue";
     case "no-operating-point": return "no operating point";
+    default: throw new EngineInputError("status", `must be one of ${VERDICT_STATUSES.join(", ")}`);
   }
 }

@@ -62,6 +62,8 @@ const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
   "api/v1/libraries/:id/upload": (c) => ({ id: String(c.lib) }),
   "api/v1/models/:id": () => ({ id: "1" }),
   "api/v1/systems/:id/preview": (c) => ({ id: String(c.system) }),
+  "api/v1/systems/:id": (c) => ({ id: String(c.system) }),
+  "api/v1/systems/:id/search": (c) => ({ id: String(c.system) }),
   "api/*": () => ({ "*": "nothing/here" }),
   "*": () => ({ "*": "nothing/here" }),
 };
