@@ -7,7 +7,8 @@ import { signIn } from "./helpers";
 test("A selection report prints on two pages with its curve table, scaled to the selected pump although another candidate runs four in parallel", async ({ page }) => {
   await signIn(page, "engineer@kestrel.example");
   // Work on a copy of the demo chilled-water project (three candidates), so the demo stays as seeded.
-  await page.goto("/projects/1");
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Harbourside Offices — chilled water", exact: true }).click();
   await page.getByRole("button", { name: "Copy project" }).click();
   await expect(page.getByRole("heading", { name: /\(copy\)/ })).toBeVisible({ timeout: 20_000 });
   await page.locator("a[href^='/systems/']").first().click();
@@ -38,7 +39,7 @@ test("A selection report prints on two pages with its curve table, scaled to the
 
   // Two pages, counted in the PDF Chromium prints (page objects of the document).
   for (const format of ["A4", "Letter"] as const) {
-    const pdf = (await page.pdf({ format, printBackground: true })).toString("latin1");
+    const pdf = (await page.pdf({ format, printBackground: true, path: `e2e/artifacts/selection-report-${format}.pdf` })).toString("latin1");
     const pages = (pdf.match(/\/Type\s*\/Page(?!s)/g) ?? []).length;
     expect(pages, `${format} pages`).toBeGreaterThanOrEqual(1);
     expect(pages, `${format} pages`).toBeLessThanOrEqual(2);

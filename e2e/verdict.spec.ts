@@ -7,7 +7,7 @@ import { signIn } from "./helpers";
 test("Lengthening the discharge run turns a fixed-speed candidate's verdict from meets to short", async ({ page }) => {
   await signIn(page, "engineer@kestrel.example");
   await page.goto("/projects");
-  await page.getByRole("link", { name: "Harbourside Offices — chilled water" }).click();
+  await page.getByRole("link", { name: "Harbourside Offices — chilled water", exact: true }).click();
   await page.getByRole("link", { name: "CHW secondary loop", exact: true }).click();
   await expect(page.getByRole("heading", { name: "CHW secondary loop" })).toBeVisible();
   // Work on a copy: the demo system stays as seeded for the other journeys.
@@ -53,7 +53,7 @@ test.describe("without JavaScript", () => {
     await page.getByLabel("Password").fill("duty-demo-2026");
     await page.getByRole("button", { name: "Sign in" }).click();
     await page.goto("/projects");
-    await page.getByRole("link", { name: "Harbourside Offices — chilled water" }).click();
+    await page.getByRole("link", { name: "Harbourside Offices — chilled water", exact: true }).click();
     await page.getByRole("link", { name: "CHW secondary loop", exact: true }).click();
     await page.getByRole("link", { name: "Find pumps for this duty" }).click();
     await expect(page.getByRole("table", { name: "Ranked pumps" })).toBeVisible({ timeout: 20_000 });

@@ -140,7 +140,7 @@ export default function SelectionReport() {
         <WorkbenchChart view={view} unitSystem={sys} duty={input.duty} title={`${f.pump.label} on ${f.system.name}`} />
       </section>
 
-      <section className="panel break-inside-avoid">
+      <section className="panel break-inside-avoid print-two-columns">
         <h2 className="font-semibold">Figures at the operating point</h2>
         <CandidateTable view={view} unitSystem={sys} />
       </section>
