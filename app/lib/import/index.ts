@@ -117,3 +117,4 @@ export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 export { decodeBytes, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";
 export type { Problem, ProblemCode, Severity } from "./types";
+export { applyCellEdits, csvField, EditRefused, MAX_EDITS, type CellEdit } from "./edit";
