@@ -52,10 +52,18 @@ export async function bulkLoad(
   // keysCheckedByCaller: every foreign key in `text` was just read back from rows this same
   // transaction wrote, so the per-row FK lookups are skipped for the load (restored right after).
   if (opts.keysCheckedByCaller) await conn.query("SET SESSION foreign_key_checks = 0");
+  let failed = false;
   try {
     return await load(conn, table, columns, text, expected);
+  } catch (e) {
+    failed = true;
+    throw e;
   } finally {
-    if (opts.keysCheckedByCaller) await conn.query("SET SESSION foreign_key_checks = 1");
+    // restore; when the load already failed (e.g. the connection was cut), keep that error
+    if (opts.keysCheckedByCaller)
+      await conn.query("SET SESSION foreign_key_checks = 1").catch((e: unknown) => {
+        if (!failed) throw e;
+      });
   }
 }
 
