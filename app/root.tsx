@@ -17,9 +17,12 @@ import { getAuth } from "~/lib/auth.server";
 import { currentMembership } from "~/lib/guards.server";
 import { problem } from "~/lib/problem.server";
 import { ensureOutboxFlusher } from "~/lib/mail.server";
-import { dbAlive } from "@db/client.server";
+import { databaseTrouble } from "~/lib/health.server";
 
-/** Bodies above these sizes are refused before any action reads them (413). */
+/**
+ * Bodies that declare more than these sizes are refused before any action reads them (413). The
+ * bytes actually read (chunked bodies too) are counted by app/serve.mjs against the same table.
+ */
 const BODY_LIMITS: [RegExp, number][] = [
   [/\/upload$/, 25 * 1024 * 1024],
   [/\/photos$/, 12 * 1024 * 1024],
@@ -45,15 +48,24 @@ export const middleware: Route.MiddlewareFunction[] = [
       throw data(detail, { status: 413 });
     }
     const res = await next();
-    // A request that failed because the database is away is a 503 (the page says "temporarily
-    // unavailable"; the API answers problem+json), never a 500. The pool reconnects by itself.
-    if (res instanceof Response && res.status === 500 && !(await dbAlive(800))) {
+    // A request that failed because the database is away (or a cluster node just went) is a 503
+    // (the page says "temporarily unavailable"; the API answers problem+json), never a 500. The
+    // pool reconnects, or moves to the next node, by itself.
+    if (res instanceof Response && res.status === 500 && (await databaseTrouble(800))) {
       const detail = "The database is not answering. Your data is safe; try again in a moment.";
       if (isApi) return problem({ title: "Service Unavailable", status: 503, detail }, { "Retry-After": "5" });
       throw data(detail, { status: 503, headers: { "Retry-After": "5" } });
     }
     const auth = await getAuth(request).catch(() => null);
     if (auth?.refreshCookie && res instanceof Response) res.headers.append("Set-Cookie", auth.refreshCookie);
+    // Nothing personal is kept by a browser or a shared cache: signed-in pages, exports and the API.
+    if (res instanceof Response && (auth || isApi || /\/export\.(csv|json)$/.test(url.pathname))) {
+      try {
+        res.headers.set("Cache-Control", "private, no-store");
+      } catch {
+        /* immutable headers (a fetched Response): leave them */
+      }
+    }
     return res;
   },
 ];

@@ -3,6 +3,7 @@ import { type RouteConfig, index, route } from "@react-router/dev/routes";
 export default [
   index("routes/home.tsx"),
   route("healthz", "routes/healthz.ts"),
+  route("livez", "routes/livez.ts"),
   // accounts
   route("signup", "routes/signup.tsx"),
   route("signin", "routes/signin.tsx"),
@@ -49,6 +50,8 @@ export default [
   route("api/v1/calc/pipe-loss", "routes/api.v1.calc.pipe-loss.ts"),
   route("api/v1/calc/system-curve", "routes/api.v1.calc.system-curve.ts"),
   route("api/v1/calc/operating-point", "routes/api.v1.calc.operating-point.ts"),
+  route("api/v1/systems/:id", "routes/api.v1.systems.$id.ts"),
+  route("api/v1/systems/:id/search", "routes/api.v1.systems.$id.search.ts"),
   route("api/v1/systems/:id/preview", "routes/api.v1.systems.$id.preview.ts"),
   route("api/stripe/webhook", "routes/api.stripe.webhook.ts"),
   route("api", "routes/api-docs.tsx"),

@@ -2,13 +2,17 @@
 // Dutymark's HTTP server for the production build (`npm start` runs it): Express + React Router's
 // request handler, like react-router-serve, plus what that one lacks here:
 //  - the client address handed to the app in a header it can trust (sign-in throttling per address),
-//  - security headers on every response (CSP, frame-ancestors, nosniff, referrer policy),
+//  - security headers on every response through helmet: a per-request nonce CSP (no inline script
+//    without it), form-action limited to our origin and the Stripe checkout, HSTS behind https,
+//  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
 //  - a clean stop on SIGTERM/SIGINT (HTTP server closed, then the process exits so the DB pool ends).
 import http from "node:http";
+import crypto from "node:crypto";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import express from "express";
 import compression from "compression";
+import helmet from "helmet";
 import { createRequestHandler } from "@react-router/express";
 
 const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
@@ -18,25 +22,120 @@ const host = process.env.HOST ?? "127.0.0.1";
 const trustProxy = process.env.TRUST_PROXY === "1";
 
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
+/** Read by app/entry.server.tsx; always overwritten here. */
+export const CSP_NONCE_HEADER = "x-dutymark-csp-nonce";
+
+/**
+ * Body limits by path, counted on the bytes read (app/root.tsx refuses the same sizes up front by
+ * Content-Length; keep the two tables equal). The calculators (fast path below) read at most their
+ * own limit themselves.
+ */
+const BODY_LIMITS = [
+  [/\/upload$/, 25 * 1024 * 1024],
+  [/\/photos$/, 12 * 1024 * 1024],
+  [/^\/api\/stripe\/webhook$/, 512 * 1024],
+];
+const DEFAULT_BODY_LIMIT = 1024 * 1024;
+const bodyLimitFor = (pathname) => BODY_LIMITS.find(([re]) => re.test(pathname))?.[1] ?? DEFAULT_BODY_LIMIT;
+
+function originOf(url) {
+  try {
+    return url ? new URL(url).origin : null;
+  } catch {
+    return null;
+  }
+}
+const appOrigin = originOf(process.env.APP_URL);
+const https = appOrigin?.startsWith("https://") ?? false;
+// Forms post to us; the billing form is answered by a redirect to the Stripe checkout (or the local
+// stand-in when STRIPE_API_BASE points at it), which form-action also governs.
+const formAction = ["'self'", appOrigin, ...(process.env.STRIPE_API_BASE ? [originOf(process.env.STRIPE_API_BASE)] : ["https://checkout.stripe.com", "https://billing.stripe.com"])].filter(Boolean);
+const securityHeaders = helmet({
+  contentSecurityPolicy: {
+    useDefaults: false,
+    directives: {
+      defaultSrc: ["'self'"],
+      scriptSrc: ["'self'", (_req, res) => `'nonce-${res.locals.cspNonce}'`],
+      // Charts and bars set style attributes; nonces do not cover attributes.
+      styleSrc: ["'self'", "'unsafe-inline'"],
+      imgSrc: ["'self'", "data:", "blob:"],
+      fontSrc: ["'self'", "data:"],
+      connectSrc: ["'self'"],
+      frameSrc: ["'self'"],
+      frameAncestors: ["'none'"],
+      formAction,
+      baseUri: ["'self'"],
+      objectSrc: ["'none'"],
+    },
+  },
+  strictTransportSecurity: https ? { maxAge: 31536000, includeSubDomains: true } : false,
+  xFrameOptions: { action: "deny" },
+  referrerPolicy: { policy: "strict-origin-when-cross-origin" },
+  crossOriginOpenerPolicy: { policy: "same-origin" },
+  crossOriginEmbedderPolicy: false,
+  crossOriginResourcePolicy: { policy: "same-origin" },
+  xPoweredBy: false,
+});
+
+/**
+ * After a 413, what the client still sends is read and dropped — never kept — so the client (or a
+ * proxy in front) can read the answer; past LINGER_BYTES or LINGER_MS the connection goes.
+ */
+const LINGER_BYTES = 64 * 1024 * 1024;
+const LINGER_MS = 30_000;
+
+function tooLarge(req, res, limit, seen) {
+  res.locals.tooLarge = true;
+  // Whoever was reading the body (React Router) stops here with an error: no action runs on a cut body.
+  req.removeAllListeners("data");
+  if (req.listenerCount("error") > 0) req.emit("error", Object.assign(new Error("request body over the limit"), { code: "BODY_TOO_LARGE" }));
+  let dropped = 0;
+  req.on("error", () => {});
+  req.on("data", (chunk) => {
+    dropped += chunk.length;
+    if (dropped > LINGER_BYTES) req.socket?.destroy();
+  });
+  req.resume();
+  const pathname = (req.originalUrl ?? req.url ?? "").split("?")[0];
+  const detail = `The request is too large: the limit here is ${limit} bytes (${seen} read or declared).`;
+  const api = pathname.startsWith("/api/");
+  res.writeHead(413, { "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", "Cache-Control": "no-store" });
+  res.end(api ? JSON.stringify({ type: "about:blank", title: "Content Too Large", status: 413, detail }) : detail);
+  setTimeout(() => req.socket?.destroy(), LINGER_MS).unref();
+}
+
+/** Counts the body bytes as they are read (by React Router, or by nobody); over the limit → 413. */
+function bodyLimit(req, res, next) {
+  if (req.method === "GET" || req.method === "HEAD") return next();
+  const limit = bodyLimitFor((req.originalUrl ?? "").split("?")[0]);
+  const declared = Number(req.headers["content-length"]);
+  if (Number.isFinite(declared) && declared > limit) return tooLarge(req, res, limit, declared);
+  let seen = 0;
+  const count = (chunk) => {
+    seen += chunk.length;
+    if (seen <= limit) return;
+    req.off("data", count);
+    if (!res.headersSent) tooLarge(req, res, limit, seen);
+    else req.socket?.destroy();
+  };
+  // Attached in the same tick as React Router's own reader (createRequestHandler builds the Request
+  // synchronously), so both see every chunk.
+  req.on("data", count);
+  next();
+}
 
 const app = express();
 app.disable("x-powered-by");
 if (trustProxy) app.set("trust proxy", true);
 app.use(compression());
 app.use((req, res, next) => {
-  // Overwrites anything a client sent under this name.
+  // Overwrites anything a client sent under these names.
   req.headers[CLIENT_IP_HEADER] = (trustProxy ? req.ip : req.socket.remoteAddress) ?? "";
-  res.setHeader(
-    "Content-Security-Policy",
-    "default-src 'self'; script-src 'self' 'unsafe-inline'; style-src 'self' 'unsafe-inline'; img-src 'self' data: blob:; " +
-      "font-src 'self' data:; connect-src 'self'; frame-src 'self'; frame-ancestors 'none'; form-action 'self' http://127.0.0.1:* http://localhost:* https://checkout.stripe.com https://billing.stripe.com; base-uri 'self'; object-src 'none'",
-  );
-  res.setHeader("X-Content-Type-Options", "nosniff");
-  res.setHeader("Referrer-Policy", "strict-origin-when-cross-origin");
-  res.setHeader("X-Frame-Options", "DENY");
-  res.setHeader("Cross-Origin-Opener-Policy", "same-origin");
+  res.locals.cspNonce = crypto.randomBytes(18).toString("base64");
+  req.headers[CSP_NONCE_HEADER] = res.locals.cspNonce;
   next();
 });
+app.use(securityHeaders);
 const assetsDir = path.join(path.dirname(buildPath), "..", "client");
 app.use("/assets", express.static(path.join(assetsDir, "assets"), { immutable: true, maxAge: "1y" }));
 app.use(express.static(assetsDir, { maxAge: "1h" }));
@@ -50,7 +149,14 @@ if (process.env.ACCESS_LOG !== "0") {
     next();
   });
 }
+app.use(bodyLimit);
 app.all("*", createRequestHandler({ build, mode: process.env.NODE_ENV }));
+// After a 413 the app's own answer (its body read failed) has nowhere to go: drop it quietly.
+app.use((err, req, res, next) => {
+  if (res.locals.tooLarge) return; // answered already; the connection closes after the linger
+  if (res.headersSent) return void req.socket?.destroy();
+  next(err);
+});
 
 // The public calculators are the hottest, simplest endpoints: stateless, no cookies, no page. They go
 // straight to their route module's action (the same code React Router would call), skipping Express
@@ -75,7 +181,7 @@ async function calcFastPath(req, res, mod) {
     headers.set(CLIENT_IP_HEADER, (trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0].trim() : "") || req.socket.remoteAddress || "");
     const request = new Request(url, { method: req.method, headers, body: req, duplex: "half" });
     const response = await mod.action({ request, params: {}, context: {} });
-    const out = { ...SECURITY_HEADERS };
+    const out = { ...SECURITY_HEADERS, "Cache-Control": "private, no-store" };
     response.headers.forEach((v, k) => (out[k] = v));
     res.writeHead(response.status, out);
     res.end(Buffer.from(await response.arrayBuffer()));

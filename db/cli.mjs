@@ -185,7 +185,7 @@ async function prepare(database, { fresh, seedDemo, keepDb } = {}) {
   const url = await ensureDatabase(database, { fresh, keepRunning: keepDb });
   const env = baseEnv({ DATABASE_URL: url });
   await mustRun("migrations", npmBin("tsx"), ["db/migrate.ts"], env);
-  if (seedDemo) await mustRun("demo data", npmBin("tsx"), ["db/seed.ts"], env);
+  if (seedDemo) await mustRun("demo data", npmBin("tsx"), ["app/cli/seed.ts"], env);
   return env;
 }
 
@@ -331,7 +331,7 @@ async function test() {
       );
     }
     await startService("relay", process.execPath, ["fixtures/proxy/round-robin.mjs", String(port), ...appPorts.map(String)], env, `${appUrl}/healthz`);
-    const code = await run(npmBin("playwright"), ["test", "-c", "e2e"], {
+    const code = await run(npmBin("playwright"), ["test", "-c", "e2e", ...(process.env.E2E_GREP ? ["-g", process.env.E2E_GREP] : [])], {
       ...env,
       BASE_URL: appUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: pwJson,
@@ -351,6 +351,133 @@ async function test() {
   const secs = ((Date.now() - t0) / 1000).toFixed(1);
   log(`all tests finished in ${secs} s`);
   process.stdout.write(`\nTests: ${passed} passed, ${failedCount} failed, ${skipped} skipped\n`);
+  await stopAll(failed || failedCount > 0 ? 1 : 0);
+}
+
+/**
+ * `npm run test:cluster`: a three-node Galera cluster on loopback (db/galera.mjs), the migrations
+ * and demo data through node 1, the cluster checks (app/test/cluster.test.ts), then the browser
+ * journeys through the round-robin relay to two app processes that prefer different nodes
+ * (DATABASE_URL lists all three, in another order for each). Partway through the journeys node 2
+ * is killed (SIGKILL): its app process moves to node 3. Afterwards node 2 rejoins (IST) and every
+ * table must be identical on all three nodes, holding at least what was committed before the kill.
+ */
+async function testCluster() {
+  const t0 = Date.now();
+  takeTestLock();
+  ensureDependencies();
+  ensureChromium();
+  const { startGaleraCluster, createClusterDatabase, sqlAt, wsrepStatus } = await import("./galera.mjs");
+  const cluster = await startGaleraCluster(3);
+  cleanups.push(cluster.stopAll);
+  const [n1, n2, n3] = cluster.nodes;
+  log(`cluster of 3 up in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  const database = "dutymark_cluster";
+  const user = "dutymark";
+  const password = localSecrets().dbPassword;
+  createClusterDatabase(n1.socket, { database, user, password });
+  const hostsOf = (nodes) => nodes.map((n) => `127.0.0.1:${n.port}`).join(",");
+  const urlOf = (nodes) => `mariadb://${user}:${password}@${hostsOf(nodes)}/${database}`;
+  const env = baseEnv({ DATABASE_URL: urlOf([n1]), NODE_ENV: "test" });
+  await mustRun("migrations", npmBin("tsx"), ["db/migrate.ts"], env);
+  await mustRun("demo data", npmBin("tsx"), ["app/cli/seed.ts"], env);
+  await mustRun("build", npmBin("react-router"), ["build"], env);
+  mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
+  let passed = 0;
+  let failedCount = 0;
+  let failed = false;
+  const vitestJson = path.join(DATA_ROOT, "reports", "vitest-cluster.json");
+  const vcode = await run(npmBin("vitest"), ["run", "app/test/cluster.test.ts", "--reporter=default", "--reporter=json", `--outputFile.json=${vitestJson}`], {
+    ...env,
+    CLUSTER_NODE_URLS: JSON.stringify([urlOf([n1]), urlOf([n2]), urlOf([n3])]),
+  });
+  const vr = readJson(vitestJson);
+  passed += vr?.numPassedTests ?? 0;
+  failedCount += vr?.numFailedTests ?? 0;
+  if (vcode !== 0 || !vr || vr.numPassedTests < 4) failed = true;
+
+  // Browser journeys on two app processes, each preferring another node.
+  const port = await freePort();
+  const appUrl = `http://127.0.0.1:${port}`;
+  Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
+  const apps = [
+    { port: await freePort(), url: urlOf([n1, n2, n3]) },
+    { port: await freePort(), url: urlOf([n2, n3, n1]) },
+  ];
+  for (const a of apps) {
+    await startService(
+      `app on ${a.port}`,
+      process.execPath,
+      ["app/serve.mjs", "build/server/index.js"],
+      { ...env, DATABASE_URL: a.url, PORT: String(a.port), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1", ACCESS_LOG: "0" },
+      `http://127.0.0.1:${a.port}/healthz`,
+    );
+  }
+  await startService("relay", process.execPath, ["fixtures/proxy/round-robin.mjs", String(port), ...apps.map((a) => String(a.port))], env, `${appUrl}/healthz`);
+  const TABLES = ["users", "workspaces", "memberships", "libraries", "library_revisions", "pump_models", "curve_sets", "curve_points", "projects", "systems", "candidates", "selections", "field_checks", "uploads"];
+  const counts = (socket) =>
+    Object.fromEntries(
+      sqlAt(socket, TABLES.map((t) => `SELECT '${t}', COUNT(*) FROM \`${database}\`.\`${t}\`;`).join(" "))
+        .trim()
+        .split("\n")
+        .map((l) => l.split("\t"))
+        .map(([t, n]) => [t, Number(n)]),
+    );
+  // Kill node 2 once the journeys are well under way (after 150 requests through the relay).
+  let before = null;
+  let killedAt = null;
+  const killer = (async () => {
+    for (let i = 0; i < 3000 && !killedAt; i++) {
+      await new Promise((r) => setTimeout(r, 200));
+      const spread = await fetch(`${appUrl}/__relay`).then((r) => r.json()).catch(() => null);
+      const total = spread ? apps.reduce((s, a) => s + (spread[a.port] ?? 0), 0) : 0;
+      if (total >= 150) {
+        before = counts(n1.socket);
+        await n2.stop({ kill: true });
+        killedAt = Date.now();
+        log(`node2 killed (SIGKILL) after ${total} requests; cluster size now ${wsrepStatus(n1.socket, "wsrep_cluster_size")}`);
+      }
+    }
+  })();
+  const pwJson = path.join(DATA_ROOT, "reports", "playwright-cluster.json");
+  const pcode = await run(npmBin("playwright"), ["test", "-c", "e2e"], { ...env, BASE_URL: appUrl, PLAYWRIGHT_JSON_OUTPUT_NAME: pwJson, PW_RETRIES: "1" });
+  killedAt ??= -1;
+  await killer;
+  const pr = readJson(pwJson);
+  passed += pr?.stats?.expected ?? 0;
+  failedCount += pr?.stats?.unexpected ?? 0;
+  const flaky = pr?.stats?.flaky ?? 0;
+  passed += flaky;
+  if (pcode !== 0) failed = true;
+  const spread = await fetch(`${appUrl}/__relay`).then((r) => r.json()).catch(() => null);
+  log(`requests per app process: ${JSON.stringify(spread)}; journeys passed on a retry: ${flaky}`);
+
+  // Node 2 rejoins; then every node must hold the same rows, and nothing committed before the kill is gone.
+  let consistent = false;
+  if (before) {
+    const t1 = Date.now();
+    await n2.start();
+    log(`node2 rejoined in ${((Date.now() - t1) / 1000).toFixed(1)} s`);
+    const after = cluster.nodes.map((n) => counts(n.socket));
+    const lost = TABLES.filter((t) => after[0][t] < before[t]);
+    const differ = TABLES.filter((t) => after.some((c) => c[t] !== after[0][t]));
+    const checksums = cluster.nodes.map((n) => sqlAt(n.socket, `CHECKSUM TABLE ${TABLES.map((t) => `\`${database}\`.\`${t}\``).join(", ")}`).trim());
+    const sameChecksums = checksums.every((c) => c === checksums[0]);
+    log(`rows before the kill: ${JSON.stringify(before)}`);
+    log(`rows after (node1): ${JSON.stringify(after[0])}`);
+    consistent = lost.length === 0 && differ.length === 0 && sameChecksums;
+    if (!consistent) log(`NOT CONSISTENT: fewer rows than before in ${lost.join(", ") || "none"}; nodes differ in ${differ.join(", ") || "none"}; checksums equal: ${sameChecksums}`);
+    else log("after the rejoin all three nodes hold the same rows (counts and CHECKSUM TABLE), none lost");
+  } else {
+    log("node2 was never killed: the journeys ended before 150 requests");
+  }
+  if (consistent) passed++;
+  else {
+    failedCount++;
+    failed = true;
+  }
+  log(`cluster tests finished in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  process.stdout.write(`\nTests: ${passed} passed, ${failedCount} failed, 0 skipped\n`);
   await stopAll(failed || failedCount > 0 ? 1 : 0);
 }
 
@@ -379,7 +506,7 @@ async function dbDown() {
 /** `npm run admin -- …`: the operator commands, on the same database as npm start. */
 async function admin() {
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { keepDb: true });
-  const code = await run(npmBin("tsx"), ["db/admin.ts", ...process.argv.slice(3)], env);
+  const code = await run(npmBin("tsx"), ["app/cli/admin.ts", ...process.argv.slice(3)], env);
   process.exit(code);
 }
 
@@ -407,7 +534,7 @@ async function dbRestore() {
   process.exit(0);
 }
 
-const commands = { admin, start, "db-backup": dbBackup, "db-restore": dbRestore, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
+const commands = { admin, start, "test-cluster": testCluster, "db-backup": dbBackup, "db-restore": dbRestore, dev, test, bench, "db-up": dbUp, "db-down": dbDown };
 if (!commands[cmd]) {
   log(`unknown command ${cmd}; one of ${Object.keys(commands).join(", ")}`);
   process.exit(2);

@@ -41,13 +41,15 @@ export function ensureDebianPackages(packages, { present, why, alternative = "" 
   }
   log(`${why}: installing ${packages.join(" ")} with apt-get (one time)…`);
   const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
+  // Another apt-get (a second checkout installing the same thing) holds dpkg's lock: wait for it.
+  const lockWait = ["-o", "DPkg::Lock::Timeout=300"];
   const run = (args) => {
     const [cmd, ...rest] = [...prefix, ...args];
     return spawnSync(cmd, rest, { stdio: ["ignore", "inherit", "inherit"], env }).status === 0;
   };
-  if (!run(["apt-get", "install", "-y", "-q", ...packages])) {
-    run(["apt-get", "update", "-q"]);
-    if (!run(["apt-get", "install", "-y", "-q", ...packages])) {
+  if (!run(["apt-get", ...lockWait, "install", "-y", "-q", ...packages])) {
+    run(["apt-get", ...lockWait, "update", "-q"]);
+    if (!run(["apt-get", ...lockWait, "install", "-y", "-q", ...packages])) {
       throw new Error(`apt-get could not install ${packages.join(" ")}. Run \`${byHand}\` by hand${alternative}.`);
     }
   }

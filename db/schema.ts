@@ -27,7 +27,7 @@ export const ref = (name: string) => bigint(name, { mode: "number", unsigned: tr
 export const createdAt = () =>
   datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
 
-import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "../app/lib/constants";
+import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "./enums";
 export { PLANS, ROLES, VISIBILITIES, type Role, type Visibility };
 
 export const workspaces = mysqlTable(
@@ -43,6 +43,8 @@ export const workspaces = mysqlTable(
     subscriptionStatus: varchar("subscription_status", { length: 32 }),
     currentPeriodEnd: datetime("current_period_end", { mode: "date" }),
     cancelAtPeriodEnd: boolean("cancel_at_period_end").notNull().default(false),
+    /** ISO 4217 code of the money the workspace's tariffs and energy costs are in. */
+    currency: varchar("currency", { length: 3 }).notNull().default("EUR"),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("workspaces_slug_uq").on(t.slug), uniqueIndex("workspaces_stripe_customer_uq").on(t.stripeCustomerId)],

@@ -12,12 +12,15 @@ test("As a new admin I sign up, confirm my address from the mailbox, sign in aga
   await page.getByLabel("Password").fill(password);
   await page.getByLabel("Workspace name").fill("Olu Engineering");
   await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByText("address not confirmed yet")).toBeVisible();
+  // The same words as for an address that already has an account; the mailed link signs in.
+  await expect(page.getByText("Check your inbox")).toBeVisible();
 
   const verify = await linkFromMailbox(page, admin, "/verify");
   await page.goto(verify);
   await page.getByRole("button", { name: "Confirm my address" }).click();
   await expect(page.getByText("Your address is confirmed")).toBeVisible();
+  await page.goto("/account");
+  await expect(page.getByText("address confirmed")).toBeVisible();
 
   await page.goto("/");
   await signOut(page);
@@ -40,6 +43,10 @@ test("As a new admin I sign up, confirm my address from the mailbox, sign in aga
   await page.getByLabel("Your name").fill("Sam Site");
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Create account" }).click();
+  await expect(page.getByText("Check your inbox")).toBeVisible();
+  await page.goto(await linkFromMailbox(page, contractor, "/verify"));
+  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await expect(page.getByRole("heading", { name: "Join Olu Engineering" })).toBeVisible();
   await page.getByRole("button", { name: "Accept and join" }).click();
   await expect(page).toHaveURL(/\/workspace$/);
   await expect(page.getByText("You are contractor here")).toBeVisible();
@@ -77,7 +84,7 @@ test("As someone who forgot a password I ask for a reset link, follow it from th
   await page.getByLabel("Password").fill("the first password");
   await page.getByLabel("Workspace name").fill("Fen Works");
   await page.getByRole("button", { name: "Create account" }).click();
-  await signOut(page);
+  await expect(page.getByText("Check your inbox")).toBeVisible();
 
   await page.goto("/forgot");
   await page.getByLabel("E-mail").fill(email);

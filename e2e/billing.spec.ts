@@ -23,7 +23,7 @@ async function newAdmin(page: Page, workspace: string) {
   await page.getByLabel("Password").fill("a long enough password");
   await page.getByLabel("Workspace name").fill(workspace);
   await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByText("address not confirmed yet")).toBeVisible();
+  await expect(page.getByText("Check your inbox")).toBeVisible();
   await page.goto(await linkFromMailbox(page, email, "/verify"));
   await page.getByRole("button", { name: "Confirm my address" }).click();
   await expect(page.getByText("Your address is confirmed")).toBeVisible();

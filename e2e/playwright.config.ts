@@ -7,7 +7,8 @@ export default defineConfig({
   outputDir: "./artifacts/results",
   timeout: 60_000,
   workers: 1,
-  retries: 0,
+  // `npm run test:cluster` allows one retry: a journey in flight when a node is stopped may see a 503.
+  retries: Number(process.env.PW_RETRIES ?? 0),
   reporter: [["list"], ["json"]],
   use: {
     baseURL: process.env.BASE_URL ?? "http://127.0.0.1:3100",

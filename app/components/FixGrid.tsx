@@ -1,6 +1,8 @@
 import { Form } from "react-router";
 
-export type FlaggedRow = { line: number; cells: string[]; problems: { index: number | null; reason: string }[] };
+import type { FlaggedRow } from "~/lib/upload-analysis";
+
+export type { FlaggedRow };
 
 /**
  * Flagged rows as an editable grid (a plain form: works without JavaScript). The server applies

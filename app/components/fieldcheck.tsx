@@ -2,9 +2,10 @@
 // verdict badge and the chart of the delivered point against the curve at the measured speed.
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
+import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { VERDICT_TEXT, type Verdict } from "~/lib/fieldcheck-form";
-import type { CheckResult } from "~/lib/fieldchecks.server";
+import type { CheckResult } from "~/lib/fieldcheck-result";
 import { fmtFlow, fmtHead, type UnitSystem } from "./units";
 
 export function FieldCaution() {
@@ -48,8 +49,9 @@ export function GradeTable({ highlight }: { highlight?: string }) {
         </tbody>
       </table>
       <p className="mt-1 text-xs text-slate-600">
-        A point passes a grade when some point of the curve at the measured speed lies within both tolerances of it. “At the tolerance limit”: outside the
-        grade as read, inside it within the gauges' and the flow meter's stated accuracy.
+        ISO 9906's tolerance cross: a point passes a grade when it meets either arm — its head within the head tolerance of the curve's head at the
+        measured flow (head arm), or its flow within the flow tolerance of the curve's flow at the measured head (flow arm), the curve taken at the
+        measured speed. “At the tolerance limit”: outside the grade as read, inside it within the gauges' and the flow meter's stated accuracy.
       </p>
     </details>
   );
@@ -71,20 +73,36 @@ export function VerdictBadge({ verdict, grade, large }: { verdict: Verdict; grad
   );
 }
 
-/** The delivered point on the curve rescaled to the measured speed, the curve as selected, the design duty and (without a flow meter) the flow band. */
+/**
+ * The curve at the measured speed and the curve as selected, each with its operating point where it
+ * meets the system curve (when the system curve is drawn), the delivered point from the readings as
+ * its own mark, the design duty and (without a flow meter) the flow band.
+ */
 export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; unitSystem: UnitSystem; compact?: boolean }) {
   const c = r.chart;
+  // Operating points on the system curve, from the stored (sampled) curves: before, the chart passed
+  // the delivered reading as the measured curve's "operating point" and none for the curve as selected,
+  // so the legend read "no operating point on the system curve" where the curves visibly cross.
+  const onSystem = (head: PumpSeries["head"], eff: PumpSeries["head"]) => {
+    const x = c.system ? crossingOf(head, c.system) : null;
+    if (!x) return null;
+    const e = interpolateAt(eff, x.flow);
+    return { flow: x.flow, head: x.y, efficiency: e ?? undefined };
+  };
   const pumps: PumpSeries[] = [
-    { id: "selected", label: c.selectedLabel, colorIndex: 1, head: c.selected, efficiency: c.selectedEff.length >= 2 ? c.selectedEff : undefined, adjusted: true },
+    { id: "selected", label: c.selectedLabel, colorIndex: 1, head: c.selected, efficiency: c.selectedEff.length >= 2 ? c.selectedEff : undefined, adjusted: true, operating: onSystem(c.selected, c.selectedEff) },
     {
       id: "measured",
       label: c.measuredLabel,
       colorIndex: 0,
       head: c.measured,
       efficiency: c.measuredEff.length >= 2 ? c.measuredEff : undefined,
-      operating: r.delivered.flow !== null ? { flow: r.delivered.flow, head: r.delivered.head } : null,
+      operating: onSystem(c.measured, c.measuredEff),
     },
   ];
+  if (r.delivered.flow !== null) {
+    pumps.push({ id: "delivered", label: "Delivered point (readings)", colorIndex: 2, head: [{ flow: r.delivered.flow, y: r.delivered.head }], operating: { flow: r.delivered.flow, head: r.delivered.head } });
+  }
   if (c.band && c.band.low !== null && c.band.high !== null && c.band.high > c.band.low) {
     pumps.push({ id: "band", label: "Flow band from gauge accuracy", colorIndex: 3, head: [{ flow: c.band.low, y: r.delivered.head }, { flow: c.band.high, y: r.delivered.head }] });
   }
@@ -93,7 +111,7 @@ export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; un
     <DutyChart
       unitSystem={unitSystem}
       title="Delivered duty point against the pump curve"
-      description={`The delivered point (${delivered}) on the pump curve ${r.speed.rescaled ? "rescaled to the measured speed" : "as compared"}, the curve as selected (dashed)${r.duty ? ", and the design duty as a cross" : ""}${pumps.length > 2 ? ", and the inferred flow band" : ""}.`}
+      description={`The delivered point (${delivered}), the pump curve ${r.speed.rescaled ? "rescaled to the measured speed" : "as compared"} and the curve as selected (dashed), each with its operating point on the system curve where it is drawn${r.duty ? ", and the design duty as a cross" : ""}${pumps.some((p) => p.id === "band") ? ", and the inferred flow band" : ""}.`}
       system={c.system ? { design: c.system } : undefined}
       pumps={pumps}
       duty={r.duty}

@@ -4,6 +4,8 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
+import { verdictLabel, type Verdict } from "~/engine";
+import type { BandPoint } from "~/lib/candidate-judgement";
 
 type Cand = WorkbenchView["candidates"][number];
 
@@ -16,7 +18,7 @@ export function candidateSeries(c: Cand, i: number): PumpSeries | null {
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c)}`,
+    label: `${c.label}${adjustmentText(c)} — ${r.verdict ? verdictLabel(r.verdict.status) : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
@@ -101,24 +103,98 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
 
 const yes = (b: boolean | null | undefined, ok: string, bad: string) => (b == null ? "—" : b ? ok : bad);
 
+const VERDICT_TONE: Record<Verdict["status"], string> = {
+  meets: "bg-emerald-100 text-emerald-900",
+  short: "bg-red-100 text-red-900",
+  oversized: "bg-amber-100 text-amber-900",
+  "outside-catalogue": "bg-red-100 text-red-900",
+  "no-operating-point": "bg-red-100 text-red-900",
+};
+
+/** The verdict as a badge (status), with its rule and reasons below unless `compact`. */
+export function VerdictView({ verdict, compact, testId }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string }) {
+  if (!verdict) return <span className="text-slate-600" data-testid={testId} data-status="none">no duty point set: nothing to judge</span>;
+  return (
+    <div data-testid={testId} data-status={verdict.status}>
+      <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-semibold ${VERDICT_TONE[verdict.status]}`}>{verdictLabel(verdict.status)}</span>
+      {compact ? null : (
+        <>
+          {verdict.reasons.map((r, i) => (
+            <p key={i} className="mt-1 text-xs">
+              {r}
+            </p>
+          ))}
+          <p className="mt-1 text-xs text-slate-500">Rule — {verdict.rule}</p>
+        </>
+      )}
+    </div>
+  );
+}
+
+/** "a – b" over the band's edges (one value when they agree to the shown digits). */
+function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | null, fmt: (x: number | null) => string): string {
+  const xs = (band ?? []).map(pick);
+  if (xs.length === 0) return "—";
+  const shown = xs.map((x) => fmt(x));
+  return shown.every((t) => t === shown[0]) ? shown[0] : shown.join(" – ");
+}
+
+const money = (x: number | null | undefined, currency: string | undefined) => (x == null ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
+
 /** Side-by-side figures of the candidates at their operating points. */
 export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitSystem; actions?: (c: Cand) => React.ReactNode }) {
   if (view.candidates.length === 0) return null;
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Operating flow", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
-    ["Operating head", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
-    ["Outcome", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result?.status === "ok" ? "meets the system" : <span className="text-duty-ink">{c.result?.message}</span>)],
+    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} />)],
+    ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
+    ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
+    ["Crossing", (c) => (c.error ? "—" : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
+    ["Band edges", (c) => (c.result?.band?.length ? c.result.band.map((b) => b.edge).join(" – ") : "—")],
+    ["Flow over the band", (c) => <span data-testid={`band-flow-${c.id}`}>{range(c.result?.band, (b) => b.flow, (x) => fmtFlow(unitSystem, x))}</span>],
+    ["Head over the band", (c) => range(c.result?.band, (b) => b.head, (x) => fmtHead(unitSystem, x))],
+    ["Efficiency over the band", (c) => range(c.result?.band, (b) => b.efficiency, (x) => fmtPct(x))],
+    ["Shaft power over the band", (c) => range(c.result?.band, (b) => b.shaftPower, (x) => fmtPower(unitSystem, x))],
+    ["NPSH margin over the band", (c) => range(c.result?.band, (b) => b.npshMarginRatio, (x) => fmtNum(x, 2))],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? `${fmtNum(c.result.figures.bepRatio * 100, 0)} % of BEP flow${c.result.figures.inPor === false ? " — outside POR" : ""}` : "—")],
     ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? `${fmtHead(unitSystem, c.result.figures.npshAvailable)} / ${fmtHead(unitSystem, c.result.figures.npshRequired)}` : "—")],
     ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{fmtNum(c.result.figures.npshMarginRatio, 2)} ({c.result.figures.npshStatus})</span> : "—")],
     ["Largest power on curve", (c) => fmtPower(unitSystem, c.result?.figures?.maxPower)],
-    ["Motor", (c) => (c.result?.figures?.motorLimit != null ? `${fmtPower(unitSystem, c.result.figures.motorLimit)} limit · ${yes(c.result.figures.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(c.result.figures.motorLoadAtDuty, 0)} load` : "set a motor rating")],
-    ["Energy per year", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${fmtNum(c.result.figures.annualEnergyKWh, 0)} kWh` : "—")],
-    ["Energy cost per year", (c) => fmtNum(c.result?.figures?.annualCost, 0)],
+    ["Motor", (c) => {
+      const f = c.result?.figures;
+      const mo = f?.motor;
+      if (!f || !mo) return f?.motorLimit != null ? `${fmtPower(unitSystem, f.motorLimit)} limit` : "—";
+      return (
+        <div>
+          <div>
+            {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}` : "—"}
+            {f.motorLimit != null ? ` · ${yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load` : ""}
+          </div>
+          <div className="text-xs text-slate-600">Suggested: {mo.suggestionBasis}.</div>
+        </div>
+      );
+    }],
+    ["Motor and drive efficiency", (c) => {
+      const mo = c.result?.figures?.motor;
+      if (!mo) return "—";
+      return (
+        <div>
+          <div>
+            motor {fmtPct(mo.efficiency)} ({mo.ieClass}){mo.driveEfficiency != null ? ` · drive ${fmtPct(mo.driveEfficiency, 0)}` : " · no drive"}
+          </div>
+          <div className="text-xs text-slate-600">
+            {mo.efficiencySource}
+            {mo.driveSource ? `; ${mo.driveSource}` : ""}
+          </div>
+        </div>
+      );
+    }],
+    ["Electrical input", (c) => fmtPower(unitSystem, c.result?.figures?.motor?.electricalPower)],
+    ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${fmtNum(c.result.figures.annualEnergyKWh, 0)} kWh` : "—")],
+    ["Energy cost per year", (c) => money(c.result?.figures?.annualCost, c.result?.figures?.motor?.currency)],
   ];
   return (
     <div className="overflow-x-auto">

@@ -11,7 +11,7 @@
  *   diameter, are flagged.
  */
 import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, type EngineWarning } from "./errors.ts";
-import { evalCubic } from "./interp.ts";
+import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 
@@ -121,30 +121,49 @@ export interface RatioSolution {
   warnings: EngineWarning[];
 }
 
+/** Relative slack on a curve's flow range for rounding in Qd/s^k (dimensionless; common practice: a few ulps). */
+const FLOW_ROUNDING = 1e-9;
+
+/**
+ * Interpolant value at t, with t pulled back onto [x₀, x_last] when it lies outside by no more
+ * than a rounding step (FLOW_ROUNDING of the range's end); null when truly outside.
+ */
+function evalAtEnds(c: MonotoneCubic, t: number): number | null {
+  const x0 = c.x[0], x1 = c.x[c.x.length - 1];
+  const slack = FLOW_ROUNDING * Math.max(Math.abs(x1), Number.MIN_VALUE);
+  if (t > x1 && t <= x1 + slack) return evalCubic(c, x1);
+  if (t < x0 && t >= x0 - slack) return evalCubic(c, x0);
+  return evalCubic(c, t);
+}
+
 /**
  * Solves s such that the scaled curve passes through (Qd, Hd): s²·H(Qd/s^k) = Hd, for
  * k = 1 (speed, linear trim) or 2 (square trim). Returns the largest root in [lo, hi].
+ * The scan runs from the highest ratio down to exactly the lowest one whose flow still lies on
+ * the curve (Qd/s^k at the curve's end, rounding absorbed by evalAtEnds), so duties in the last
+ * interval of the curve are found; an end within 1e-9 of the duty head counts as a root.
  */
 function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number, hi: number) {
   const f = (s: number) => {
-    const h = evalCubic(c.head, qd / Math.pow(s, k));
+    const h = evalAtEnds(c.head, qd / Math.pow(s, k));
     return h === null ? NaN : s * s * h - hd;
   };
   // Ratios for which Qd/s^k lies on the curve.
   const sMin = Math.max(lo, Math.pow(qd / c.flowMax, 1 / k));
   const sMax = c.flowMin > 0 ? Math.min(hi, Math.pow(qd / c.flowMin, 1 / k)) : hi;
   if (!(sMin <= sMax)) return { status: "outside-curve" as const, ratio: null };
+  const atRoot = (v: number) => Math.abs(v) <= 1e-9 * hd;
   const N = 48;
   let prevS = sMax, prevF = f(sMax);
-  if (prevF === 0) return { status: "ok" as const, ratio: sMax };
+  if (atRoot(prevF)) return { status: "ok" as const, ratio: sMax };
   for (let i = 1; i <= N; i++) {
-    const s = sMax - ((sMax - sMin) * i) / N;
+    const s = i === N ? sMin : sMax - ((sMax - sMin) * i) / N;
     const fs = f(s);
-    if (fs === 0) return { status: "ok" as const, ratio: s };
     if (prevF * fs < 0) {
       const r = brent(f, s, prevS, 1e-14);
       if (r) return { status: "ok" as const, ratio: r.x };
     }
+    if (atRoot(fs)) return { status: "ok" as const, ratio: s };
     prevS = s; prevF = fs;
   }
   return { status: (f(sMax) < 0 ? "duty-above-curve" : "duty-below-limit") as "duty-above-curve" | "duty-below-limit", ratio: null };
@@ -180,7 +199,7 @@ export function speedForDuty(
         : r.status === "outside-curve" ? "duty flow falls outside the curve at every allowed speed"
         : "duty needs a speed below the lowest allowed" };
   }
-  const e = c.efficiency ? evalCubic(c.efficiency, qd / r.ratio) : null;
+  const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed !== null ? c.speed * r.ratio : null, diameter: c.impellerDiameter,
     efficiency: e, warnings, message: `speed ratio ${r.ratio.toFixed(4)}` });
@@ -216,7 +235,7 @@ export function trimForDuty(
         : r.status === "outside-curve" ? "duty flow falls outside the curve at every trim"
         : "duty needs a trim beyond the searched range" };
   }
-  const e = c.efficiency ? evalCubic(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
+  const e = c.efficiency ? evalAtEnds(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,
     efficiency: e, warnings: trimWarnings(c, r.ratio), message: `diameter ratio ${r.ratio.toFixed(4)} (${law} law, approximate)` });
 }

@@ -8,9 +8,10 @@
  * tolerance grades. Without: flow is inferred where the curve meets the measured TDH, and a
  * band from the gauge accuracy (root-sum-square of both gauges, as independent errors)
  * is carried through the curve: flat curves give wide bands.
- * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed).
+ * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed); a point meets a
+ * grade on either arm of the standard's tolerance cross (gradeCross).
  */
-import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { EngineInputError, requireFinite, requireFiniteResult, requireInRange, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
@@ -42,6 +43,16 @@ export const TOLERANCE_GRADES: readonly ToleranceGrade[] = [
   { id: "2U", flow: [0, 0.16], head: [0, 0.1], powerAbove: 0.16, efficiencyBelow: 0.05, source: ISO },
   { id: "3B", flow: [0.09, 0.09], head: [0.07, 0.07], powerAbove: 0.09, efficiencyBelow: 0.07, source: ISO },
 ];
+
+/** Throws unless `grade` has flow and head tolerances as pairs of finite fractions in [0, 1]. */
+function checkGrade(grade: ToleranceGrade, name = "grade"): void {
+  if (!grade || typeof grade !== "object") throw new EngineInputError(name, "must be a tolerance grade");
+  for (const key of ["flow", "head"] as const) {
+    const pair = grade[key];
+    if (!Array.isArray(pair) || pair.length !== 2) throw new EngineInputError(`${name}.${key}`, "must be [below, above] fractions");
+    pair.forEach((v, i) => requireInRange(`${name}.${key}[${i}]`, v, 0, 1));
+  }
+}
 
 /** One pressure gauge. */
 export interface GaugeReading {
@@ -90,8 +101,8 @@ export interface FieldCheckResult {
   powerDeviation: number | null;
   /** Inferred flow band from gauge accuracy, m³/s (null bound: beyond the curve). */
   flowBand: { low: number | null; high: number | null; headUncertainty: number } | null;
-  /** Verdict per grade (measured flow only). */
-  grades: { id: string; pass: boolean }[];
+  /** Verdict per grade (measured flow only), with its tolerance cross (null when the head is not above zero). */
+  grades: { id: string; pass: boolean; cross?: GradeCross | null }[];
   /** Tightest grade met, or null. */
   bestGrade: string | null;
   verdict: "within-tolerance" | "outside-tolerance" | "no-flow-meter" | "off-curve";
@@ -147,31 +158,64 @@ function curveFlowFor(c: PumpCurve, target: (q: number) => number): number | nul
   return found;
 }
 
+/** One arm of the tolerance cross: the curve's value there, the measured deviation from it, and the grade's allowance. */
+export interface GradeArm {
+  /** Head arm: curve head at the measured flow, m. Flow arm: curve flow at the measured head, m³/s. Null off the curve. */
+  curveValue: number | null;
+  /** (measured − curve)/curve (fraction), null off the curve. */
+  deviation: number | null;
+  /** Allowed [below, above] (fractions). */
+  allowed: readonly [number, number];
+  pass: boolean;
+  /** Fraction points inside the allowance (negative: outside), null off the curve. */
+  margin: number | null;
+}
+
+/** The tolerance cross of a grade at a measured point: head arm, flow arm, and whether either is met. */
+export interface GradeCross {
+  head: GradeArm;
+  flow: GradeArm;
+  /** Met when either arm is met. */
+  pass: boolean;
+}
+
 /**
- * Whether a measured point lies within a grade's tolerance of the curve: some curve point
- * (Q, H(Q)) has Qm within [(1 − a)Q, (1 + b)Q] and Hm within [(1 − c)H, (1 + d)H].
+ * Tolerance cross of a grade (ISO 9906:2012, 6.4.2, from memory: the H(Q) curve must meet the
+ * vertical or the horizontal arm of the cross ±tQ·Q, ±tH·H around the guarantee point). With
+ * one measured point against a published curve the arms read: head arm — the measured head
+ * within the grade's head tolerance of the curve's head at the measured flow; flow arm — the
+ * measured flow within the flow tolerance of the curve's flow at the measured head (highest-flow
+ * crossing, as fieldCheck's flowDeviation). Either arm met: the grade is met.
+ * @param curve pump curve (prepared or raw; SI)
+ * @param flow measured flow, m³/s
+ * @param head measured head, m
+ * @param grade tolerance grade (fractions)
+ */
+export function gradeCross(curve: PumpCurve | PumpCurveInput, flow: number, head: number, grade: ToleranceGrade): GradeCross {
+  const c = ensurePumpCurve(curve);
+  requireNonNegative("flow", flow);
+  requirePositive("head", head);
+  checkGrade(grade);
+  const eps = 1e-12;
+  const arm = (curveValue: number | null, measured: number, allowed: readonly [number, number]): GradeArm => {
+    const deviation = curveValue !== null && curveValue > 0 ? measured / curveValue - 1 : null;
+    const margin = deviation === null ? null : Math.min(deviation + allowed[0], allowed[1] - deviation);
+    return { curveValue, deviation, allowed, pass: margin !== null && margin >= -eps, margin };
+  };
+  const headArm = arm(evalCubic(c.head, flow), head, grade.head);
+  const flowArm = arm(curveFlowFor(c, () => head), flow, grade.flow);
+  return { head: headArm, flow: flowArm, pass: headArm.pass || flowArm.pass };
+}
+
+/**
+ * Whether a measured point meets a grade: either arm of the tolerance cross ({@link gradeCross}).
  * @param curve pump curve (prepared or raw; SI)
  * @param flow measured flow, m³/s
  * @param head measured head, m
  * @param grade tolerance grade (fractions)
  */
 export function withinGrade(curve: PumpCurve | PumpCurveInput, flow: number, head: number, grade: ToleranceGrade): boolean {
-  const c = ensurePumpCurve(curve);
-  const lo = Math.max(c.flowMin, flow / (1 + grade.flow[1]));
-  const hi = grade.flow[0] >= 1 ? c.flowMax : Math.min(c.flowMax, flow / (1 - grade.flow[0]));
-  if (lo > hi) return false;
-  let min = Infinity, max = -Infinity;
-  const N = 200;
-  for (let i = 0; i <= N; i++) {
-    const q = lo + ((hi - lo) * i) / N;
-    const h = evalCubic(c.head, q) as number;
-    if (!(h > 0)) continue;
-    const r = head / h - 1;
-    if (r < min) min = r;
-    if (r > max) max = r;
-  }
-  const eps = 1e-12;
-  return max >= -grade.head[0] - eps && min <= grade.head[1] + eps;
+  return gradeCross(curve, flow, head, grade).pass;
 }
 
 /**
@@ -214,7 +258,10 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
       const pc = shaftPowerAt(c, q, rho);
       powerDeviation = pc !== null && pc > 0 ? pm / pc - 1 : null;
     }
-    const verdicts = grades.map((g) => ({ id: g.id, pass: t.tdh > 0 && withinGrade(c, q, t.tdh, g) }));
+    const verdicts = grades.map((g) => {
+      const cross = t.tdh > 0 ? gradeCross(c, q, t.tdh, g) : null;
+      return { id: g.id, pass: cross !== null && cross.pass, cross };
+    });
     const best = verdicts.find((v) => v.pass)?.id ?? null;
     if (curveHead === null) warnings.push({ code: "flow-off-curve", message: "measured flow lies outside the published curve" });
     dutyDeviation = dutyDev(q, t.tdh);

@@ -99,14 +99,24 @@ describe("field check", () => {
     expect(r.bestGrade).toBe("1B");
     expect(r.verdict).toBe("within-tolerance");
   });
-  it("head 10 % low: fails 1B and 2B, passes 3B (ISO 9906:2012 grades, from memory)", () => {
+  it("head 10 % low: meets no grade — head arm −10 % is beyond 3B's −7 %, and the flow arm too (ISO 9906:2012 cross, from memory)", () => {
     const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge: { ...dischargeBase, pressure: pd(0.9 * h0) }, measuredFlow: q0 });
     const pass = Object.fromEntries(r.grades.map((g) => [g.id, g.pass]));
-    expect(pass["1B"]).toBe(false);
-    expect(pass["2B"]).toBe(false);
-    expect(pass["1U"]).toBe(false);
-    expect(pass["3B"]).toBe(true);
-    expect(r.headDeviation!).toBeLessThan(-0.09);
+    expect(pass).toEqual({ "1B": false, "1E": false, "1U": false, "2B": false, "2U": false, "3B": false });
+    const g3 = r.grades.find((g) => g.id === "3B")!.cross!;
+    expect(g3.head.deviation!).toBeCloseTo(-0.1, 6);
+    expect(g3.head.margin!).toBeCloseTo(-0.03, 6); // 3 points outside −7 %
+    expect(g3.flow.deviation!).toBeLessThan(-0.09); // flow arm: outside −9 % as well
+    expect(g3.flow.deviation!).toBeCloseTo(r.flowDeviation!, 12); // the same number the page shows
+  });
+  it("head 6 % low: meets 3B on the head arm only, 1 point inside; the flow arm is not met (flat curve: small head, large flow difference)", () => {
+    const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge: { ...dischargeBase, pressure: pd(0.94 * h0) }, measuredFlow: q0 });
+    const g3 = r.grades.find((g) => g.id === "3B")!;
+    expect(g3.pass).toBe(true);
+    expect(g3.cross!.head.pass).toBe(true);
+    expect(g3.cross!.head.margin!).toBeCloseTo(0.01, 6); // −6 % against −7 %
+    expect(g3.cross!.flow.pass).toBe(false);
+    expect(r.grades.find((g) => g.id === "2B")!.pass).toBe(false); // −6 % against 2B's −5 %
   });
   it("no flow meter: flow inferred from the curve equals the true flow; band widens with gauge accuracy", () => {
     const r = fieldCheck({ curve: etaCurve, fluid: water, suction, discharge });

@@ -17,7 +17,7 @@
  *   differs from IAPWS-95's own saturation line by up to 7e-5 relative over 1–100 °C.
  * Density in kg/m³; observed max difference from IAPWS-95 over 0–100 °C: 1.5e-5.
  */
-import { requireFinite, requirePositive, requireNonNegative, EngineInputError } from "./errors.ts";
+import { requireFinite, requireInRange, requirePositive, requireNonNegative, EngineInputError } from "./errors.ts";
 import { STANDARD_ATMOSPHERE } from "./units.ts";
 
 /** A fluid state at one temperature, SI units. */
@@ -72,6 +72,8 @@ const R1_N = [
  * @param pressurePa absolute pressure, Pa (≥ saturation pressure)
  */
 export function if97Region1Density(temperatureK: number, pressurePa: number): number {
+  requireInRange("temperatureK", temperatureK, 273.15, 623.15);
+  requirePositive("pressurePa", pressurePa);
   const pi = pressurePa / 16.53e6;
   const tau = 1386 / temperatureK;
   const a = 7.1 - pi;
@@ -99,6 +101,7 @@ const N4 = [
  * @param temperatureK temperature, K
  */
 export function if97SaturationPressure(temperatureK: number): number {
+  requireInRange("temperatureK", temperatureK, 273.15, 647.096);
   const T = temperatureK;
   const theta = T + N4[8] / (T - N4[9]);
   const A = theta * theta + N4[0] * theta + N4[1];
@@ -126,6 +129,8 @@ const H1 = [
  * @param density density, kg/m³
  */
 export function iapwsViscosity(temperatureK: number, density: number): number {
+  requirePositive("temperatureK", temperatureK);
+  requirePositive("density", density);
   const Tr = temperatureK / T_CRIT;
   const rr = density / RHO_CRIT;
   let s0 = 0;

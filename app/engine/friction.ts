@@ -1,8 +1,23 @@
 /**
- * Darcy friction factor correlations and the Hazen-Williams loss formula: pure formulas,
- * no validation (callers go through {@link ./headLoss.ts} or the registry, which validate
- * and warn). Darcy f is dimensionless; Re and ε/D are dimensionless.
+ * Darcy friction factor correlations and the Hazen-Williams loss formula: pure formulas.
+ * Each refuses non-finite or out-of-domain arguments with EngineInputError (one cheap
+ * comparison); validity-range warnings come from {@link ./headLoss.ts} and the registry.
+ * Darcy f is dimensionless; Re and ε/D are dimensionless.
  */
+import { EngineInputError } from "./errors.ts";
+
+/** Throws unless Re is finite and > 0 and ε/D finite and ≥ 0 (one branch on the happy path). */
+function checkReRr(reynolds: number, relativeRoughness: number): void {
+  if (reynolds > 0 && reynolds < Infinity && relativeRoughness >= 0 && relativeRoughness < Infinity) return;
+  if (!(reynolds > 0 && reynolds < Infinity)) throw new EngineInputError("reynolds", `must be a finite number > 0 (got ${reynolds})`);
+  throw new EngineInputError("relativeRoughness", `must be a finite number ≥ 0 (got ${relativeRoughness})`);
+}
+
+/** Throws unless v is finite and > 0 (or ≥ 0 when zeroOk). */
+function checkArg(name: string, v: number, zeroOk = false): void {
+  if ((zeroOk ? v >= 0 : v > 0) && v < Infinity) return;
+  throw new EngineInputError(name, `must be a finite number ${zeroOk ? "≥" : ">"} 0 (got ${v})`);
+}
 
 // The constants keep Clamond's 40 published digits on purpose (the nearest double is what runs).
 /* eslint-disable no-loss-of-precision */
@@ -71,6 +86,7 @@ function lnRough(x: number): number {
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function colebrook(reynolds: number, relativeRoughness: number): number {
+  checkReRr(reynolds, relativeRoughness);
   const X1 = relativeRoughness * reynolds * CL_X1;
   // Starting point: Clamond's F0 = X2 − 0.2, but with ln(Re) taken from the exponent and
   // leading mantissa bits (error < 0.06), so the first ln(X1 + F0) need not wait for the
@@ -109,6 +125,8 @@ export function colebrook(reynolds: number, relativeRoughness: number): number {
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function colebrookResidual(f: number, reynolds: number, relativeRoughness: number): number {
+  checkArg("f", f);
+  checkReRr(reynolds, relativeRoughness);
   const s = 1 / Math.sqrt(f);
   return s + 2 * Math.log10(relativeRoughness / 3.7 + (2.51 / reynolds) * s);
 }
@@ -120,6 +138,7 @@ export function colebrookResidual(f: number, reynolds: number, relativeRoughness
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function swameeJain(reynolds: number, relativeRoughness: number): number {
+  checkReRr(reynolds, relativeRoughness);
   const l = Math.log10(relativeRoughness / 3.7 + 5.74 / Math.pow(reynolds, 0.9));
   return 0.25 / (l * l);
 }
@@ -131,6 +150,7 @@ export function swameeJain(reynolds: number, relativeRoughness: number): number 
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function haaland(reynolds: number, relativeRoughness: number): number {
+  checkReRr(reynolds, relativeRoughness);
   const x = -1.8 * Math.log10(Math.pow(relativeRoughness / 3.7, 1.11) + 6.9 / reynolds);
   return 1 / (x * x);
 }
@@ -143,6 +163,7 @@ export function haaland(reynolds: number, relativeRoughness: number): number {
  * @param relativeRoughness ε/D (dimensionless)
  */
 export function churchill(reynolds: number, relativeRoughness: number): number {
+  checkReRr(reynolds, relativeRoughness);
   const a = 2.457 * Math.log(Math.pow(7 / reynolds, 0.9) + 0.27 * relativeRoughness);
   const a2 = a * a, a4 = a2 * a2, a8 = a4 * a4;
   const A = a8 * a8;
@@ -160,6 +181,7 @@ export function churchill(reynolds: number, relativeRoughness: number): number {
  * @param reynolds Reynolds number (dimensionless)
  */
 export function laminar(reynolds: number): number {
+  checkArg("reynolds", reynolds);
   return 64 / reynolds;
 }
 
@@ -173,6 +195,10 @@ export function laminar(reynolds: number): number {
  * @returns head loss, m
  */
 export function hazenWilliamsHeadLoss(flow: number, diameter: number, length: number, c: number): number {
+  checkArg("flow", flow, true);
+  checkArg("diameter", diameter);
+  checkArg("length", length, true);
+  checkArg("c", c);
   return (10.67 * length * Math.pow(flow, 1.852)) / (Math.pow(c, 1.852) * Math.pow(diameter, 4.87));
 }
 
@@ -184,6 +210,10 @@ export function hazenWilliamsHeadLoss(flow: number, diameter: number, length: nu
  * @param roughness absolute roughness, m (default 0.045 mm, commercial steel)
  */
 export function fullyRoughFrictionFactor(diameter: number, roughness = 0.045e-3): number {
+  checkArg("diameter", diameter);
+  checkArg("roughness", roughness);
+  // ε/(3.7D) ≥ 1 makes the logarithm ≥ 0: the formula has no meaning there (roughness ≥ 3.7·D).
+  if (!(roughness < 3.7 * diameter)) throw new EngineInputError("roughness", "must be below 3.7 × the diameter");
   const l = Math.log10(roughness / diameter / 3.7);
   return 0.25 / (l * l);
 }

@@ -19,6 +19,7 @@ export const TURBULENT_MIN_RE = 4000;
  * @param reynolds Reynolds number (dimensionless)
  */
 export function regimeOf(reynolds: number): Regime {
+  if (!(reynolds >= 0 && reynolds < Infinity)) throw new EngineInputError("reynolds", `must be a finite number ≥ 0 (got ${reynolds})`);
   if (reynolds === 0) return "no-flow";
   if (reynolds <= LAMINAR_MAX_RE) return "laminar";
   if (reynolds < TURBULENT_MIN_RE) return "transition";
@@ -169,6 +170,9 @@ export function pipeHeadLoss(input: PipeLossInput): PipeLossResult {
   const K = requireNonNegative("minorK", input.minorK ?? 0);
   const nu = requirePositive("kinematicViscosity", input.kinematicViscosity);
   const model: LossModel = input.model ?? { type: "darcy" };
+  if (!model || (model.type !== "darcy" && model.type !== "hazen-williams")) {
+    throw new EngineInputError("model.type", `must be 'darcy' or 'hazen-williams' (got ${String((model as { type?: unknown } | null)?.type)})`);
+  }
   const area = (Math.PI * D * D) / 4;
   const V = flow / area;
   const Re = (V * D) / nu;

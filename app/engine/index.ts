@@ -28,8 +28,8 @@ export {
   type Regime, type FrictionResult, type LossModel, type PipeLossInput, type PipeLossResult,
 } from "./headLoss.ts";
 export {
-  FITTINGS, CRANE_FT, fitting, fittingK, fittingFrictionFactor, sumK, suddenEnlargementK, suddenContractionK,
-  type FittingDef, type FittingUse, type KModel,
+  FITTINGS, CRANE_FT, CRANE_FT_RANGE, TEE_BRANCH_K_2009, fitting, fittingK, fittingKDetailed, fittingFrictionFactor, sumK, sumKDetailed,
+  suddenEnlargementK, suddenContractionK, type FittingDef, type FittingUse, type FittingKResult, type KModel, type SizeBand,
 } from "./fittings.ts";
 export {
   prepareSystem, systemHead, systemHeadFunction, systemCurve, suctionLoss,
@@ -56,10 +56,19 @@ export {
   type FiguresInput, type OperatingFigures,
 } from "./figures.ts";
 export {
-  fieldCheck, gaugeTdh, withinGrade, TOLERANCE_GRADES,
-  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type ToleranceGrade,
+  fieldCheck, gaugeTdh, gradeCross, withinGrade, TOLERANCE_GRADES,
+  type FieldCheckInput, type FieldCheckResult, type GaugeReading, type GradeArm, type GradeCross, type ToleranceGrade,
 } from "./fieldCheck.ts";
 export {
-  prepareSearchIndex, searchDuty,
+  prepareSearchIndex, searchDuty, explainRanks,
   type CurveSet, type SearchIndex, type SearchOptions, type Candidate, type SearchResult,
 } from "./search.ts";
+export {
+  judgeCandidate, catalogueReasons, verdictLabel, VERDICT_STATUSES, DEFAULT_FLOW_TOLERANCE, DEFAULT_SPEED_RANGE, VERDICT_ROUNDOFF,
+  type Verdict, type VerdictStatus, type VerdictInput, type BandEdge, type CatalogueLimits, type FlowTolerance, type SavingOption,
+} from "./verdict.ts";
+export {
+  IEC_MOTOR_RATINGS_KW, MOTOR_RATINGS_SOURCE, IE_CLASSES, DEFAULT_IE_CLASS, DEFAULT_DRIVE_EFFICIENCY, MOTOR_EFFICIENCY_SOURCE, IE_EFFICIENCY_TABLE,
+  nextStandardRating, suggestMotor, motorEfficiency, polesForSpeed, annualEnergy,
+  type IeClass, type MotorSuggestion, type EnergyFigures,
+} from "./motor.ts";

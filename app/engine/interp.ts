@@ -5,6 +5,7 @@
  * overshoots or oscillates; at a local extremum of the data the slope is set to zero.
  * Defined only on [x₀, x_last]; outside, evaluation returns null.
  */
+import { EngineInputError } from "./errors.ts";
 
 /** A prepared monotone cubic: knots, values and tangents. */
 export interface MonotoneCubic {
@@ -62,7 +63,14 @@ export function fritschCarlsonTangents(x: ArrayLike<number>, y: ArrayLike<number
  * @param ys values at the knots (any unit)
  */
 export function monotoneCubic(xs: readonly number[], ys: readonly number[]): MonotoneCubic {
+  if (!Array.isArray(xs) || xs.length === 0) throw new EngineInputError("xs", "must be a non-empty array of knots");
+  if (!Array.isArray(ys) || ys.length !== xs.length) throw new EngineInputError("ys", "must have one value per knot");
   const n = xs.length;
+  for (let k = 0; k < n; k++) {
+    if (!Number.isFinite(xs[k])) throw new EngineInputError(`xs[${k}]`, `must be a finite number (got ${xs[k]})`);
+    if (!Number.isFinite(ys[k])) throw new EngineInputError(`ys[${k}]`, `must be a finite number (got ${ys[k]})`);
+    if (k > 0 && !(xs[k] > xs[k - 1])) throw new EngineInputError(`xs[${k}]`, "knots must be strictly increasing");
+  }
   // Plain arrays: cheaper to allocate and to keep alive than typed arrays for a few knots.
   const x = xs.slice();
   const y = ys.slice();
@@ -78,6 +86,8 @@ export function monotoneCubic(xs: readonly number[], ys: readonly number[]): Mon
  * @param t abscissa (unit of the knots)
  */
 export function evalCubic(c: MonotoneCubic, t: number): number | null {
+  if (!(t > -Infinity && t < Infinity)) throw new EngineInputError("t", `must be a finite number (got ${t})`);
+  if (!c || !c.x || !(c.x.length > 0)) throw new EngineInputError("c", "must be an interpolant from monotoneCubic");
   const x = c.x;
   const n = x.length;
   if (!(t >= x[0] && t <= x[n - 1])) return null;

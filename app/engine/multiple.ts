@@ -4,7 +4,7 @@
  * add no capacity. Power adds; efficiency is that of one pump at its own share; NPSHr is
  * that of one pump at its own flow (parallel) or of the first pump (series).
  */
-import { EngineInputError, requireInteger, type EngineWarning } from "./errors.ts";
+import { EngineInputError, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 
 /** How pumps are combined. */
@@ -59,6 +59,10 @@ export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arr
  * @param arrangement mode and counts (unitless; counts dimensionless)
  */
 export function flowPerPump(totalFlow: number, arrangement: Arrangement): number {
+  const q = requireNonNegative("totalFlow", totalFlow);
+  if (!arrangement || typeof arrangement !== "object") throw new EngineInputError("arrangement", "is required");
   const n = requireInteger("arrangement.duty", arrangement.duty, 1);
-  return arrangement.mode === "parallel" ? totalFlow / n : totalFlow;
+  const mode = arrangement.mode;
+  if (mode !== "parallel" && mode !== "series") throw new EngineInputError("arrangement.mode", `must be 'parallel' or 'series' (got ${String(mode)})`);
+  return mode === "parallel" ? q / n : q;
 }

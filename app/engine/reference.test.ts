@@ -7,7 +7,7 @@ import { describe, expect, it } from "vitest";
 import friction from "../../fixtures/reference/friction.json";
 import water from "../../fixtures/reference/water.json";
 import fittingsRef from "../../fixtures/reference/fittings.json";
-import { churchill, colebrook, colebrookResidual, fittingFrictionFactor, FITTINGS, frictionFactor, haaland, laminar, swameeJain, waterProperties } from "./index.ts";
+import { churchill, colebrook, colebrookResidual, fittingFrictionFactor, fittingK, FITTINGS, frictionFactor, haaland, laminar, swameeJain, waterProperties } from "./index.ts";
 
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 
@@ -107,9 +107,20 @@ describe("fittings vs python3-fluids Crane functions (fixtures/reference/fitting
     for (const [id, n] of Object.entries(fittingsRef.crane_multiples)) {
       const f = FITTINGS.find((x) => x.id === id);
       expect(f, id).toBeDefined();
-      expect(f!.model.type).toBe("ft-multiple");
-      if (f!.model.type === "ft-multiple") expect(Math.abs(f!.model.n - (n as number)), id).toBeLessThan(0.1);
+      // n at the fixture's bore (0.10226 m, 4 in Sch 40): K/fT with fT as we compute it for that bore
+      const ours = fittingK(id, 0.10226) / fittingFrictionFactor(0.10226);
+      expect(Math.abs(ours - (n as number)), id).toBeLessThan(0.1);
     }
+  });
+  it("butterfly valve by bore: 45 / 35 / 25 × fT with the edges at 9 in and 15 in, as fluids' K_butterfly_valve_Crane (Crane TP-410 2009)", () => {
+    for (const r of fittingsRef.butterfly_by_diameter) {
+      expect(Math.abs(fittingK("butterfly-valve-open", r.D) / fittingFrictionFactor(r.D) - r.n), String(r.D)).toBeLessThan(1e-9);
+    }
+  });
+  it("tee, all flow through the branch: 1.69 from fluids' K_branch_diverging_Crane (Crane TP-410 2009; conservative over converging 1.1)", () => {
+    const t = fittingsRef.tee_branch_all_flow;
+    expect(t.diverging).toBeGreaterThan(t.converging);
+    for (const nominal of ["1/2", "2", "4", "12", "24"]) expect(fittingK("tee-branch", 0.1, nominal)).toBeCloseTo(t.diverging, 12);
   });
   it("fT for a typed diameter (rough-pipe limit, ε = 0.045 mm) within 3 % of fluids ft_Crane", () => {
     for (const r of fittingsRef.ft_crane) expect(rel(fittingFrictionFactor(r.D), r.ft)).toBeLessThan(0.03);

@@ -9,6 +9,7 @@ import {
   pipeHeadLoss, prepareSearchIndex, searchDuty, speedForDuty, systemCurve, systemHead, trimForDuty, waterProperties,
   scaleBySpeed, combinePumps, toSI,
 } from "./index.ts";
+import * as E from "./index.ts";
 import { rng, makeCurve } from "./test/curveSets.ts";
 import { samplePoints } from "./test/curves.ts";
 
@@ -126,4 +127,159 @@ describe("bad input throws EngineInputError naming the parameter", () => {
       expect((err as EngineInputError).message).toContain(parameter);
     });
   }
+});
+
+/**
+ * Sweep of the public face: every function exported by index.ts has an entry below with its
+ * numeric parameters; each refuses NaN, +Infinity and −Infinity (and the listed out-of-domain
+ * values) in each of them with an EngineInputError naming a parameter, and every mode/kind/enum
+ * parameter refuses an unknown value. A new export without an entry fails the first test.
+ */
+describe("public face sweep: non-finite, out-of-domain and unknown values are refused", () => {
+  const water = fluidAt({ kind: "water" }, 20);
+  const curve = createPumpCurve({ points: samplePoints({ power: true }), speed: 2900, impellerDiameter: 0.2 });
+  const sys = { fluid: water, staticHead: 10, discharge: [{ length: 100, diameter: 0.1, roughness: 4.5e-5 }] };
+  const cubic = E.monotoneCubic([0, 1, 2], [3, 2, 0]);
+  const gauge = (p: number) => ({ pressure: p, elevation: 0, pipeDiameter: 0.1 });
+  type Arg = (x: number) => unknown;
+  /** name → [call with the probed number, ordinary value, out-of-domain values] per numeric parameter. */
+  const numeric: Record<string, [Arg, number, number[]][]> = {
+    colebrook: [[(x) => E.colebrook(x, 1e-4), 1e5, [0, -1]], [(x) => E.colebrook(1e5, x), 1e-4, [-1e-4]]],
+    colebrookResidual: [[(x) => E.colebrookResidual(x, 1e5, 1e-4), 0.02, [0, -0.02]], [(x) => E.colebrookResidual(0.02, x, 1e-4), 1e5, [0]]],
+    swameeJain: [[(x) => E.swameeJain(x, 1e-4), 1e5, [0, -1]], [(x) => E.swameeJain(1e5, x), 1e-4, [-1]]],
+    haaland: [[(x) => E.haaland(x, 1e-4), 1e5, [0, -1]], [(x) => E.haaland(1e5, x), 1e-4, [-1]]],
+    churchill: [[(x) => E.churchill(x, 1e-4), 1e5, [0, -1]], [(x) => E.churchill(1e5, x), 1e-4, [-1]]],
+    laminar: [[(x) => E.laminar(x), 1000, [0, -1]]],
+    hazenWilliamsHeadLoss: [[(x) => E.hazenWilliamsHeadLoss(x, 0.1, 100, 120), 0.01, [-0.01]], [(x) => E.hazenWilliamsHeadLoss(0.01, x, 100, 120), 0.1, [0, -0.1]],
+      [(x) => E.hazenWilliamsHeadLoss(0.01, 0.1, x, 120), 100, [-1]], [(x) => E.hazenWilliamsHeadLoss(0.01, 0.1, 100, x), 120, [0, -120]]],
+    fullyRoughFrictionFactor: [[(x) => E.fullyRoughFrictionFactor(x), 0.1, [0, -0.1]], [(x) => E.fullyRoughFrictionFactor(0.1, x), 4.5e-5, [0, -1, 0.5]]],
+    flowPerPump: [[(x) => E.flowPerPump(x, { mode: "parallel", duty: 2 }), 0.01, [-0.01]], [(x) => E.flowPerPump(0.01, { mode: "parallel", duty: x }), 2, [0, 1.5]]],
+    evalCubic: [[(x) => E.evalCubic(cubic, x), 1, []]],
+    monotoneCubic: [[(x) => E.monotoneCubic([0, x, 2], [3, 2, 0]), 1, [0, 3]], [(x) => E.monotoneCubic([0, 1, 2], [3, x, 0]), 2, []]],
+    regimeOf: [[(x) => E.regimeOf(x), 1e5, [-1]]],
+    frictionFactor: [[(x) => E.frictionFactor(x, 1e-4), 1e5, [0, -1]], [(x) => E.frictionFactor(1e5, x), 1e-4, [-1]]],
+    frictionFactorDetailed: [[(x) => E.frictionFactorDetailed(x, 1e-4), 1e5, [0]], [(x) => E.frictionFactorDetailed(1e5, x), 1e-4, [-1]]],
+    pipeHeadLoss: [[(x) => E.pipeHeadLoss({ flow: x, diameter: 0.1, length: 10, roughness: 1e-5, kinematicViscosity: 1e-6 }), 0.01, [-1]],
+      [(x) => E.pipeHeadLoss({ flow: 0.01, diameter: x, length: 10, roughness: 1e-5, kinematicViscosity: 1e-6 }), 0.1, [0]]],
+    fittingFrictionFactor: [[(x) => E.fittingFrictionFactor(x), 0.1, [0, -1]]],
+    fittingK: [[(x) => E.fittingK("butterfly-valve-open", x), 0.1, [0, -1]]],
+    fittingKDetailed: [[(x) => E.fittingKDetailed("tee-branch", x), 0.1, [0, -1]]],
+    sumK: [[(x) => E.sumK([{ id: "elbow-90-standard" }], x), 0.1, [0]], [(x) => E.sumK([{ k: x }], 0.1), 1, [-1]], [(x) => E.sumK([{ k: 1, count: x }], 0.1), 2, [-1, 0.5]]],
+    sumKDetailed: [[(x) => E.sumKDetailed([{ id: "exit" }], x), 0.1, [0]]],
+    suddenEnlargementK: [[(x) => E.suddenEnlargementK(x, 0.2), 0.1, [0, 0.3]]],
+    suddenContractionK: [[(x) => E.suddenContractionK(0.2, x), 0.1, [0, 0.3]]],
+    if97Region1Density: [[(x) => E.if97Region1Density(x, 101325), 300, [0, 200, 700]], [(x) => E.if97Region1Density(300, x), 101325, [0, -1]]],
+    if97SaturationPressure: [[(x) => E.if97SaturationPressure(x), 300, [0, 700]]],
+    iapwsViscosity: [[(x) => E.iapwsViscosity(x, 998), 300, [0]], [(x) => E.iapwsViscosity(300, x), 998, [0, -1]]],
+    waterProperties: [[(x) => E.waterProperties(x), 20, [-10, 120]]],
+    fluidAt: [[(x) => E.fluidAt({ kind: "water" }, x), 20, [120]]],
+    customFluid: [[(x) => E.customFluid("oil", x, 1e-3, 2000), 900, [0, -1]], [(x) => E.customFluid("oil", 900, x, 2000), 1e-3, [0]]],
+    checkFluid: [[(x) => E.checkFluid({ ...water, density: x }), 998, [0]]],
+    typedDiameter: [[(x) => E.typedDiameter(x), 0.1, [0, -1]]],
+    innerDiameter: [[(x) => E.innerDiameter("steel-sch40", String(x)), 4, [3.3]]],
+    createPumpCurve: [[(x) => E.createPumpCurve({ points: [{ flow: 0, head: 20 }, { flow: x, head: 10 }] }), 0.01, [0, -1]]],
+    ensurePumpCurve: [[(x) => E.ensurePumpCurve({ points: [{ flow: 0, head: x }, { flow: 0.01, head: 10 }] }), 20, [-1]]],
+    headAt: [[(x) => E.headAt(curve, x), 0.01, []]],
+    efficiencyAt: [[(x) => E.efficiencyAt(curve, x), 0.01, []]],
+    shaftPowerAt: [[(x) => E.shaftPowerAt(curve, x, 1000), 0.01, []], [(x) => E.shaftPowerAt(curve, 0.01, x), 1000, [0]]],
+    npshrAt: [[(x) => E.npshrAt(curve, x), 0.01, []]],
+    flowsAtHead: [[(x) => E.flowsAtHead(curve, x), 20, []]],
+    sampleCurve: [[(x) => E.sampleCurve(curve, x), 61, [1, 1e6]]],
+    solveOperatingPoint: [[(x) => E.solveOperatingPoint(curve, () => x), 10, []]],
+    operatingPointInSystem: [[(x) => E.operatingPointInSystem(curve, { ...sys, staticHead: x }), 10, []]],
+    operatingPoint: [[(x) => E.operatingPoint(samplePoints(), { staticHead: x, segments: [], temperatureC: 20 }), 10, []]],
+    prepareSystem: [[(x) => E.prepareSystem({ ...sys, staticHead: x }), 10, []]],
+    systemHead: [[(x) => E.systemHead(sys, x), 0.01, [-0.01]]],
+    systemHeadFunction: [[(x) => E.systemHeadFunction(sys)(x), 0.01, [-0.01]]],
+    systemCurve: [[(x) => E.systemCurve(sys, { flowMax: x }), 0.05, [0, -1]]],
+    suctionLoss: [[(x) => E.suctionLoss(sys, x), 0.01, [-0.01]]],
+    scaleBySpeed: [[(x) => E.scaleBySpeed(curve, x), 0.9, [0, -1]]],
+    scaleByTrim: [[(x) => E.scaleByTrim(curve, x), 0.9, [0, -1]]],
+    speedForDuty: [[(x) => E.speedForDuty(curve, { flow: x, head: 20 }), 0.01, [0, -1]]],
+    trimForDuty: [[(x) => E.trimForDuty(curve, { flow: 0.01, head: x }), 20, [0, -1]]],
+    affinityPoint: [[(x) => E.affinityPoint({ flow: 1, head: 1 }, x), 0.9, [0, -1]]],
+    combinePumps: [[(x) => E.combinePumps(curve, { mode: "parallel", duty: x }), 2, [0, 1.5]]],
+    npshAvailable: [[(x) => E.npshAvailable({ surfacePressure: x, vaporPressure: 2339, density: 998, staticSuctionHead: 1, suctionLoss: 1 }), 101325, [-1]]],
+    maxShaftPower: [[(x) => E.maxShaftPower(curve, x), 1000, [0]]],
+    operatingFigures: [[(x) => E.operatingFigures({ curve, fluid: water, flow: x }), 0.01, [-1]]],
+    gaugeTdh: [[(x) => E.gaugeTdh(gauge(0), gauge(x), 0.01, 998), 2e5, []], [(x) => E.gaugeTdh(gauge(0), gauge(2e5), x, 998), 0.01, [-1]]],
+    withinGrade: [[(x) => E.withinGrade(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.withinGrade(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
+    gradeCross: [[(x) => E.gradeCross(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.gradeCross(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
+    fieldCheck: [[(x) => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: x }), 0.01, [-1]]],
+    prepareSearchIndex: [[(x) => E.prepareSearchIndex([{ id: "a", curve: { points: samplePoints(), speed: x } }]).rejected.length === 1 ? (() => { throw new EngineInputError("speed", "rejected"); })() : 0, 2900, [0, -1]]],
+    searchDuty: [[(x) => E.searchDuty([{ id: "a", curve }], { flow: x, head: 10 }), 0.01, [0, -1]]],
+    brent: [[(x) => E.brent((t) => t - 1, x, 2), 0, []], [(x) => E.brent((t) => t - 1, 0, 2, x), 1e-9, [-1]]],
+    bisection: [[(x) => E.bisection((t) => t - 1, x, 2, 1e-9), 0, []]],
+    toSI: [[(x) => E.toSI("flow", "m3/h", x), 1, []]],
+    fromSI: [[(x) => E.fromSI("flow", "m3/h", x), 1, []]],
+    convert: [[(x) => E.convert("flow", x, "m3/h", "gpm"), 1, []]],
+  };
+  /** Functions without numeric parameters: lookups by id/name (each refuses an unknown one). */
+  const lookups: Record<string, () => unknown> = {
+    fitting: () => E.fitting("butterfly"),
+    pipeTable: () => E.pipeTable("steel"),
+    material: () => E.material("unobtanium"),
+    unitDef: () => E.unitDef("flow", "m3/hr"),
+    unitLabel: () => E.unitLabel("flow", "m3/hr"),
+  };
+  /** Every mode/kind/enum parameter with an unknown value. */
+  const enums: [string, () => unknown][] = [
+    ["flowPerPump mode 'Parallel'", () => E.flowPerPump(0.01, { mode: "Parallel" as never, duty: 2 })],
+    ["combinePumps mode", () => E.combinePumps(curve, { mode: "tandem" as never, duty: 2 })],
+    ["systemHead level", () => E.systemHead(sys, 0.01, { level: "Max" as never })],
+    ["systemHead roughness", () => E.systemHead(sys, 0.01, { roughness: "Aged" as never })],
+    ["systemHeadFunction level", () => E.systemHeadFunction(sys, { level: "high" as never })],
+    ["systemCurve design", () => E.systemCurve(sys, { flowMax: 0.05, design: { roughness: "old" as never } })],
+    ["suctionLoss roughness", () => E.suctionLoss(sys, 0.01, "Aged" as never)],
+    ["operatingPointInSystem level", () => E.operatingPointInSystem(curve, sys, { level: "x" as never })],
+    ["prepareSystem mode", () => E.prepareSystem({ ...sys, mode: "closed" as never })],
+    ["prepareSystem lossModel", () => E.prepareSystem({ ...sys, lossModel: "hw" as never })],
+    ["prepareSystem frictionMethod", () => E.prepareSystem({ ...sys, frictionMethod: "moody" as never })],
+    ["frictionFactor method", () => E.frictionFactor(1e5, 1e-4, "moody" as never)],
+    ["frictionFactorDetailed method", () => E.frictionFactorDetailed(1e5, 1e-4, "hazen-williams" as never)],
+    ["pipeHeadLoss model.type", () => E.pipeHeadLoss({ flow: 0.01, diameter: 0.1, length: 10, roughness: 1e-5, kinematicViscosity: 1e-6, model: { type: "Darcy" } as never })],
+    ["pipeHeadLoss model.method", () => E.pipeHeadLoss({ flow: 0.01, diameter: 0.1, length: 10, roughness: 1e-5, kinematicViscosity: 1e-6, model: { type: "darcy", method: "x" } as never })],
+    ["fluidAt kind", () => E.fluidAt({ kind: "Water" } as never, 20)],
+    ["scaleByTrim law", () => E.scaleByTrim(curve, 0.9, "cubic" as never)],
+    ["trimForDuty law", () => E.trimForDuty(curve, { flow: 0.01, head: 20 }, { law: "cubic" as never })],
+    ["searchDuty methods", () => E.searchDuty([{ id: "a", curve }], { flow: 0.01, head: 10 }, { methods: ["Direct" as never] })],
+    ["searchDuty trimLaw", () => E.searchDuty([{ id: "a", curve }], { flow: 0.01, head: 10 }, { trimLaw: "cubic" as never })],
+    ["withinGrade grade", () => E.withinGrade(curve, 0.01, 20, { id: "x" } as never)],
+    ["gradeCross grade", () => E.gradeCross(curve, 0.01, 20, { id: "x", flow: [0.1, 2], head: [0, 0.1] } as never)],
+    ["fieldCheck grades", () => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: 0.01, grades: [{ id: "x" } as never] })],
+    ["toSI quantity", () => E.toSI("Flow" as never, "m3/h", 1)],
+    ["toSI unit", () => E.toSI("flow", "m3/hr", 1)],
+  ];
+  const exported = Object.entries(E).filter(([, v]) => typeof v === "function" && !/^[A-Z]/.test(String((v as { name?: string }).name ?? "")))
+    .map(([k]) => k).filter((k) => k !== "findCorrelation"); // findCorrelation: a lookup documented to return undefined for an unknown id
+
+  function refuses(label: string, fn: () => unknown) {
+    let err: unknown = null, out: unknown;
+    try { out = fn(); } catch (e) { err = e; }
+    expect(err, `${label} returned ${JSON.stringify(out)?.slice(0, 60)}`).toBeInstanceOf(EngineInputError);
+    expect((err as EngineInputError).parameter.length, label).toBeGreaterThan(0);
+  }
+
+  it("every exported function has a sweep entry", () => {
+    const covered = new Set([...Object.keys(numeric), ...Object.keys(lookups)]);
+    expect(exported.filter((k) => !covered.has(k))).toEqual([]);
+  });
+  it("each numeric parameter: the ordinary value works; NaN, ±Infinity and out-of-domain values throw EngineInputError", () => {
+    let probes = 0;
+    for (const [name, params] of Object.entries(numeric)) {
+      params.forEach(([call, ok, domain], i) => {
+        expect(() => call(ok), `${name} #${i} with ${ok}`).not.toThrow();
+        for (const x of [NaN, Infinity, -Infinity, ...domain]) { refuses(`${name} #${i} with ${x}`, () => call(x)); probes++; }
+      });
+    }
+    expect(probes).toBeGreaterThan(300);
+  });
+  it("lookups refuse unknown ids", () => {
+    for (const [name, fn] of Object.entries(lookups)) refuses(name, fn);
+  });
+  it("every mode/kind parameter refuses an unknown value (flowPerPump no longer treats 'Parallel' as series)", () => {
+    for (const [label, fn] of enums) refuses(label, fn);
+    expect(E.flowPerPump(0.02, { mode: "parallel", duty: 2 })).toBe(0.01); // Q/n, common practice
+    expect(E.flowPerPump(0.02, { mode: "series", duty: 2 })).toBe(0.02);
+  });
 });

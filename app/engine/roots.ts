@@ -3,6 +3,16 @@
  * (Prentice-Hall, 1973), ch. 4 (zero finder combining bisection, secant and inverse
  * quadratic interpolation), with an iteration cap and bisection as the named fallback.
  */
+import { EngineInputError } from "./errors.ts";
+
+/** Throws unless f is a function, a and b finite, tol (if given) finite and ≥ 0, and the cap a whole number ≥ 1. */
+function checkBracket(f: unknown, a: number, b: number, tol: number | undefined, maxIterations: number): void {
+  if (typeof f !== "function") throw new EngineInputError("f", "must be a function");
+  if (!(a > -Infinity && a < Infinity)) throw new EngineInputError("a", `must be a finite number (got ${a})`);
+  if (!(b > -Infinity && b < Infinity)) throw new EngineInputError("b", `must be a finite number (got ${b})`);
+  if (tol !== undefined && !(tol >= 0 && tol < Infinity)) throw new EngineInputError("tol", `must be a finite number ≥ 0 (got ${tol})`);
+  if (!(Number.isInteger(maxIterations) && maxIterations >= 1)) throw new EngineInputError("maxIterations", `must be a whole number ≥ 1 (got ${maxIterations})`);
+}
 
 /** Result of a bracketed solve. */
 export interface RootResult {
@@ -32,6 +42,7 @@ export function brent(
   tol?: number,
   maxIterations = 100,
 ): RootResult | null {
+  checkBracket(f, a, b, tol, maxIterations);
   let fa = f(a), fb = f(b);
   if (fa === 0) return { x: a, fx: 0, iterations: 0, method: "brent", converged: true };
   if (fb === 0) return { x: b, fx: 0, iterations: 0, method: "brent", converged: true };
@@ -84,6 +95,7 @@ export function bisection(
   maxIterations = 200,
   startCount = 0,
 ): RootResult | null {
+  checkBracket(f, a, b, tol, maxIterations);
   let fa = f(a);
   const fb = f(b);
   if (fa === 0) return { x: a, fx: 0, iterations: startCount, method: "bisection", converged: true };

@@ -55,9 +55,12 @@ describe("searchDuty", () => {
   it("ranks by efficiency at duty and says why", () => {
     expect(res.candidates[0].id).toBe("direct");
     expect(res.candidates[0].rank).toBe(1);
-    expect(res.candidates[0].reason).toMatch(/#1 of 2: meets the duty directly/);
-    expect(res.candidates[0].reason).toMatch(/efficient at duty \(best found\)/);
-    expect(res.candidates[1].reason).toMatch(/points below best/);
+    expect(res.candidates[0].reason).toMatch(/#1 of 2: reaches the duty point as published/);
+    expect(res.candidates[0].reason).toMatch(/highest score/);
+    // Row 2 names row 1 and the figures in which it falls behind it (made-up curves above).
+    expect(res.candidates[1].reason).toMatch(/below #1 because: .*points less efficient/);
+    const gap = ((res.candidates[0].efficiency! - res.candidates[1].efficiency!) * 100).toFixed(1);
+    expect(res.candidates[1].reason).toContain(`${gap} points less efficient`);
     expect(res.candidates[0].score).toBeGreaterThan(res.candidates[1].score);
   });
   it("NPSH available below NPSHr removes a candidate; a thin margin is reported", () => {

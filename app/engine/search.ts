@@ -11,7 +11,8 @@
  *    `methods` order, default direct → trim → speed).
  * 3. Candidates are ranked by a score built from efficiency at duty (constant-efficiency
  *    assumption for trim/speed), distance from BEP flow, NPSH margin and shaft power; each
- *    gets a reason stating its figures and how it compares with the top candidate.
+ *    gets a reason stating its figures and how it compares with the row above it
+ *    (`explainRanks`, also used by the app after it filters and merges rows).
  */
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
@@ -295,6 +296,7 @@ export function searchDuty(
   const hd = requirePositive("duty.head", duty.head);
   const tol = requireNonNegative("headTolerance", options.headTolerance ?? 0.05);
   const methods = options.methods ?? ["direct", "trim", "speed"];
+  if (!Array.isArray(methods) || methods.some((m) => m !== "direct" && m !== "trim" && m !== "speed")) throw new EngineInputError("methods", "must list only 'direct', 'trim' and 'speed'");
   const law = options.trimLaw ?? "linear";
   if (law !== "linear" && law !== "square") throw new EngineInputError("trimLaw", "must be 'linear' or 'square'");
   const k = law === "linear" ? 1 : 2;
@@ -340,7 +342,7 @@ export function searchDuty(
       }
     }
     if (method === null) continue;
-    const qOrig = qd / Math.pow(ratio, kk); // flow on the original curve that maps to the duty flow
+    const qOrig = Math.min(fMax[e], qd / Math.pow(ratio, kk)); // flow on the original curve that maps to the duty flow (rounding at the end clamped)
     const headAtDuty = method === "direct" ? (h1 as number) : hd;
     const eff = evalPacked(idx.eff, e, qOrig);
     const bepQ = idx.bepFlow[e] < 0 ? null : idx.bepFlow[e] * Math.pow(ratio, kk);
@@ -363,10 +365,9 @@ export function searchDuty(
   }
 
   // Score: efficiency first; penalties for distance from BEP, thin NPSH margin, extra power.
-  let minPower = Infinity, bestEff = 0;
+  let minPower = Infinity;
   for (const c of found) {
     if (c.shaftPower !== null && c.shaftPower < minPower) minPower = c.shaftPower;
-    if (c.efficiency !== null && c.efficiency > bestEff) bestEff = c.efficiency;
   }
   for (const c of found) {
     let s = c.efficiency ?? 0.3;
@@ -378,19 +379,64 @@ export function searchDuty(
   }
   found.sort((a, b) => b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   const top = found.slice(0, limit);
-  top.forEach((c, i) => {
-    c.rank = i + 1;
-    const parts: string[] = [];
-    parts.push(c.method === "direct" ? `meets the duty directly (${c.headAtDuty.toFixed(1)} m at duty flow)`
-      : c.method === "trim" ? `meets the duty trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${(c.diameter * 1000).toFixed(0)} mm)` : ""}`
-      : `meets the duty at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
-    parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty${c.efficiency >= bestEff - 1e-12 ? " (best found)" : ` (${((bestEff - c.efficiency) * 100).toFixed(1)} points below best)`}` : "no efficiency data (ranked down)");
-    if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
-    if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
-    if (c.shaftPower !== null) parts.push(`${(c.shaftPower / 1000).toFixed(2)} kW shaft${c.shaftPower <= minPower * (1 + 1e-12) ? " (lowest)" : ""}`);
-    c.reason = `#${c.rank} of ${found.length}: ${parts.join("; ")}`;
-  });
+  explainRanks(top, found.length, reqMargin);
   return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched: found.length } });
+}
+
+/** What a row is, in words (how it meets the duty and its figures). */
+function describe(c: Candidate, reqMargin: number): string {
+  const parts: string[] = [];
+  parts.push(c.method === "direct" ? `reaches the duty point as published (${c.headAtDuty.toFixed(1)} m at duty flow)`
+    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${(c.diameter * 1000).toFixed(0)} mm)` : ""}`
+    : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
+  parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
+  if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
+  if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
+  if (c.shaftPower !== null) parts.push(`${(c.shaftPower / 1000).toFixed(2)} kW shaft`);
+  return parts.join("; ");
+}
+
+/** How row b (ranked below) compares with row a (the row above), in words. */
+function compareWithAbove(a: Candidate, b: Candidate): string {
+  const diffs: string[] = [];
+  if (a.efficiency !== null && b.efficiency !== null) {
+    const d = (a.efficiency - b.efficiency) * 100;
+    if (Math.abs(d) >= 0.05) diffs.push(`${Math.abs(d).toFixed(1)} points ${d > 0 ? "less" : "more"} efficient`);
+  } else if (a.efficiency !== null && b.efficiency === null) diffs.push("no efficiency data where it has some");
+  if (a.bepRatio !== null && b.bepRatio !== null) {
+    const da = Math.abs(a.bepRatio - 1), db = Math.abs(b.bepRatio - 1);
+    if (Math.abs(da - db) >= 0.005) diffs.push(`${db > da ? "further from" : "nearer"} BEP (${Math.round(b.bepRatio * 100)} % against ${Math.round(a.bepRatio * 100)} %)`);
+  }
+  if (a.shaftPower !== null && b.shaftPower !== null) {
+    const d = b.shaftPower - a.shaftPower;
+    if (Math.abs(d) >= 5) diffs.push(`${(Math.abs(d) / 1000).toFixed(2)} kW ${d > 0 ? "more" : "less"} shaft power`);
+  }
+  if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
+    diffs.push(`NPSH margin ${b.npshMargin.toFixed(2)} against ${a.npshMargin.toFixed(2)}`);
+  }
+  const score = a.score - b.score;
+  return diffs.length
+    ? `below #${a.rank} because: ${diffs.join(", ")} (score ${b.score.toFixed(3)} against ${score >= 0 ? "" : "only "}${a.score.toFixed(3)})`
+    : `below #${a.rank} on score ${b.score.toFixed(3)} against ${a.score.toFixed(3)} (figures alike)`;
+}
+
+/**
+ * Numbers the rows 1…n in their order and writes each one's reason: what it is, and how it
+ * compares with the row above it (the first row: why it leads). Rows must already be sorted.
+ * @param rows ranked candidates (SI figures; rank and reason are rewritten)
+ * @param total how many met the duty in all (count)
+ * @param reqMargin required NPSH margin ratio (dimensionless)
+ * @param notes per row, a comparison with the row above that replaces the score comparison (unitless text; null: compare figures)
+ */
+export function explainRanks(rows: Candidate[], total: number, reqMargin: number, notes: readonly (string | null)[] = []): Candidate[] {
+  rows.forEach((c, i) => {
+    c.rank = i + 1;
+    const what = describe(c, reqMargin);
+    c.reason = i === 0
+      ? `#1 of ${total}: ${what}; highest score ${c.score.toFixed(3)} (efficiency less penalties for distance from BEP, thin NPSH margin and extra power)`
+      : `#${c.rank} of ${total}: ${what}; ${notes[i] ?? compareWithAbove(rows[i - 1], c)}`;
+  });
+  return rows;
 }
 
 /** Ratio s in [lo, hi] with s²·H(Qd/s^k) = Hd (largest root if several); null if none. */
@@ -399,11 +445,13 @@ function solveScale(idx: SearchIndex, e: number, qd: number, hd: number, k: numb
   const sMin = Math.max(lo, k === 1 ? qd / qMax : Math.sqrt(qd / qMax));
   const sMax = qMin > 0 ? Math.min(hi, k === 1 ? qd / qMin : Math.sqrt(qd / qMin)) : hi;
   if (!(sMin <= sMax)) return null;
-  const f = (s: number) => s * s * (evalPacked(idx.head, e, qd / (k === 1 ? s : s * s)) ?? 0) - hd;
+  // Qd/s^k is on the curve for s in [sMin, sMax] up to rounding: clamp it onto the curve (an
+  // evaluation past the end by one ulp used to read as head 0 and return a false root at sMin).
+  const f = (s: number) => s * s * (evalPacked(idx.head, e, Math.min(qMax, Math.max(qMin, qd / (k === 1 ? s : s * s)))) ?? 0) - hd;
   const fHi = f(sMax);
-  if (fHi === 0) return sMax;
+  if (Math.abs(fHi) <= 1e-9 * hd) return sMax;
   const fLo = f(sMin);
-  if (fLo === 0) return sMin;
+  if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
   if (fLo * fHi < 0) {
     const r = brent(f, sMin, sMax, 1e-12);
     return r ? r.x : null;

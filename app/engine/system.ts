@@ -6,7 +6,7 @@
  */
 import { EngineInputError, requireFinite, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";
-import { sumK, type FittingUse } from "./fittings.ts";
+import { sumKDetailed, type FittingUse } from "./fittings.ts";
 import { LAMINAR_MAX_RE, pipeHeadLoss, type LossModel, type PipeLossResult } from "./headLoss.ts";
 import { churchill, hazenWilliamsHeadLoss } from "./friction.ts";
 import { findCorrelation } from "./registry.ts";
@@ -94,12 +94,14 @@ interface PreparedRun {
   cAged: number;
 }
 
-function prepareRun(run: PipeRunSpec, where: string, lossModel: string): PreparedRun {
+function prepareRun(run: PipeRunSpec, where: string, lossModel: string, warnings: EngineWarning[]): PreparedRun {
   if (!run || typeof run !== "object") throw new EngineInputError(where, "must be a pipe run");
   const diameter = requirePositive(`${where}.diameter`, run.diameter);
   const roughness = requireNonNegative(`${where}.roughness`, run.roughness);
   const agedRoughness = requireNonNegative(`${where}.agedRoughness`, run.agedRoughness ?? roughness);
-  const k = requireNonNegative(`${where}.minorK`, run.minorK ?? 0) + sumK(run.fittings ?? [], diameter, run.nominal);
+  const fk = sumKDetailed(run.fittings ?? [], diameter, run.nominal);
+  for (const w of fk.warnings) warnings.push({ ...w, message: `${run.name ?? where}: ${w.message}` });
+  const k = requireNonNegative(`${where}.minorK`, run.minorK ?? 0) + fk.k;
   let c = 1, cAged = 1;
   if (lossModel === "hazen-williams") {
     c = requirePositive(`${where}.hazenWilliamsC`, run.hazenWilliamsC);
@@ -120,6 +122,9 @@ export function prepareSystem(spec: SystemSpec): PreparedSystem {
   if (mode !== "open" && mode !== "closed-loop") throw new EngineInputError("mode", "must be 'open' or 'closed-loop'");
   const lossModel = spec.lossModel ?? "darcy";
   if (lossModel !== "darcy" && lossModel !== "hazen-williams") throw new EngineInputError("lossModel", "must be 'darcy' or 'hazen-williams'");
+  const frictionMethod = spec.frictionMethod ?? "colebrook";
+  const corr = findCorrelation(frictionMethod);
+  if (!corr || corr.kind !== "darcy-friction") throw new EngineInputError("frictionMethod", `unknown friction method "${String(frictionMethod)}"`);
   const warnings: EngineWarning[] = [];
   let st = { min: 0, max: 0, nominal: 0 };
   let fixedHead: number;
@@ -141,10 +146,19 @@ export function prepareSystem(spec: SystemSpec): PreparedSystem {
     fixedHead = requireNonNegative("controlHead", spec.controlHead ?? 0);
     if (spec.staticHead !== undefined && spec.staticHead !== 0) warnings.push({ code: "ignored", parameter: "staticHead", message: "a closed loop has no static lift; static head ignored" });
   }
-  const suction = (spec.suction ?? []).map((r, i) => prepareRun(r, `suction[${i}]`, lossModel));
-  const discharge = (spec.discharge ?? []).map((r, i) => prepareRun(r, `discharge[${i}]`, lossModel));
+  const suction = (spec.suction ?? []).map((r, i) => prepareRun(r, `suction[${i}]`, lossModel, warnings));
+  const discharge = (spec.discharge ?? []).map((r, i) => prepareRun(r, `discharge[${i}]`, lossModel, warnings));
   return { fluid, mode, static: st, fixedHead, suction, discharge, lossModel,
-    frictionMethod: spec.frictionMethod ?? "colebrook", warnings };
+    frictionMethod, warnings };
+}
+
+/** Throws unless `which` names a known level and pipe condition; returns them with defaults. */
+function checkCase(which: SystemCase | undefined): { level: "min" | "max" | "nominal"; aged: boolean } {
+  const level = which?.level ?? "nominal";
+  const roughness = which?.roughness ?? "new";
+  if (level !== "min" && level !== "max" && level !== "nominal") throw new EngineInputError("which.level", `must be 'min', 'max' or 'nominal' (got ${String(level)})`);
+  if (roughness !== "new" && roughness !== "aged") throw new EngineInputError("which.roughness", `must be 'new' or 'aged' (got ${String(roughness)})`);
+  return { level, aged: roughness === "aged" };
 }
 
 function asPrepared(system: SystemSpec | PreparedSystem): PreparedSystem {
@@ -185,7 +199,8 @@ function runsLoss(sys: PreparedSystem, runs: PreparedRun[], flow: number, aged: 
  */
 export function suctionLoss(system: SystemSpec | PreparedSystem, flow: number, roughness: "new" | "aged" = "new"): RunsLoss {
   const sys = asPrepared(system);
-  return runsLoss(sys, sys.suction, requireNonNegative("flow", flow), roughness === "aged");
+  const { aged } = checkCase({ roughness });
+  return runsLoss(sys, sys.suction, requireNonNegative("flow", flow), aged);
 }
 
 /** System head at one flow, with its parts. */
@@ -218,8 +233,8 @@ export interface SystemHeadResult {
 export function systemHead(system: SystemSpec | PreparedSystem, flow: number, which: SystemCase = {}): SystemHeadResult {
   const sys = asPrepared(system);
   requireNonNegative("flow", flow);
-  const aged = (which.roughness ?? "new") === "aged";
-  const staticHead = sys.mode === "closed-loop" ? 0 : sys.static[which.level ?? "nominal"];
+  const { level, aged } = checkCase(which);
+  const staticHead = sys.mode === "closed-loop" ? 0 : sys.static[level];
   const s = runsLoss(sys, sys.suction, flow, aged);
   const d = runsLoss(sys, sys.discharge, flow, aged);
   const head = staticHead + sys.fixedHead + s.headLoss + d.headLoss;
@@ -238,8 +253,8 @@ export function systemHead(system: SystemSpec | PreparedSystem, flow: number, wh
  */
 export function systemHeadFunction(system: SystemSpec | PreparedSystem, which: SystemCase = {}): (flow: number) => number {
   const sys = asPrepared(system);
-  const aged = (which.roughness ?? "new") === "aged";
-  const staticHead = sys.mode === "closed-loop" ? 0 : sys.static[which.level ?? "nominal"];
+  const { level, aged } = checkCase(which);
+  const staticHead = sys.mode === "closed-loop" ? 0 : sys.static[level];
   const nSuction = sys.suction.length;
   const nu = sys.fluid.kinematicViscosity;
   const runs = [...sys.suction, ...sys.discharge];

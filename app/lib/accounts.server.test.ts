@@ -114,17 +114,22 @@ describe("sign-in checks and throttling", () => {
     expect(unknown).toEqual({ ok: false, reason: "invalid" });
   });
 
-  test(`after ${THROTTLE.perAccount} failures the account is throttled, even with the right password`, async () => {
+  test(`after ${THROTTLE.freePerPair} failures from one address that pair waits a growing delay; the owner elsewhere signs in`, async () => {
     const m = await makeMember("engineer");
-    for (let i = 0; i < THROTTLE.perAccount; i++) await checkCredentials(m.email, `bad-${i}`, `10.2.${i}.1`);
-    expect(await checkCredentials(m.email, "correct horse battery", "10.2.99.1")).toEqual({ ok: false, reason: "throttled" });
+    for (let i = 0; i < THROTTLE.freePerPair + 2; i++) await checkCredentials(m.email, `bad-${i}`, "10.2.0.1");
+    // 5 failures, 3 free → 2^(5−3) = 4 s after the last one (the rule in auth.server.ts).
+    const held = await checkCredentials(m.email, "correct horse battery", "10.2.0.1");
+    expect(held).toMatchObject({ ok: false, reason: "throttled" });
+    expect((held as { retryAfter: number }).retryAfter).toBeGreaterThan(0);
+    expect((held as { retryAfter: number }).retryAfter).toBeLessThanOrEqual(4);
+    expect((await checkCredentials(m.email, "correct horse battery", "10.2.99.1")).ok).toBe(true); // another address: not held
   });
 
   test(`after ${THROTTLE.perAddress} failures from one address, that address is throttled`, async () => {
     const ip = `10.3.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
     for (let i = 0; i < THROTTLE.perAddress; i++) await checkCredentials(uniqEmail(`spray${i}`), "bad password", ip);
     const m = await makeMember("engineer");
-    expect(await checkCredentials(m.email, "correct horse battery", ip)).toEqual({ ok: false, reason: "throttled" });
+    expect(await checkCredentials(m.email, "correct horse battery", ip)).toMatchObject({ ok: false, reason: "throttled" });
     expect((await checkCredentials(m.email, "correct horse battery", "10.4.0.1")).ok).toBe(true);
   });
 });
@@ -217,5 +222,9 @@ describe("CSRF origin check", () => {
     expect(csrfRefusal(post({}))).toMatch(/refused/);
     expect(csrfRefusal(new Request(`${BASE}/workspace`))).toBeNull(); // GET
     expect(csrfRefusal(post({ authorization: "Bearer abc" }))).toBeNull(); // no ambient credentials
+    // A session cookie is ambient: with it, a Bearer header no longer exempts the request (issue 14).
+    expect(csrfRefusal(post({ authorization: "Bearer abc", cookie: "dm_session=abc123" }))).toMatch(/refused/);
+    expect(csrfRefusal(post({ authorization: "Bearer abc", cookie: "theme=dark; dm_session=abc123", origin: "http://evil.example" }))).toMatch(/refused/);
+    expect(csrfRefusal(post({ authorization: "Bearer abc", cookie: "dm_session=abc123", origin: BASE }))).toBeNull();
   });
 });

@@ -2,10 +2,12 @@
 // Every multi-row write runs in one transaction (withTransaction).
 import { and, eq, gt, isNull, ne, count } from "drizzle-orm";
 import { db, withTransaction, type Db } from "@db/client.server";
-import { apiTokens, emailTokens, invitations, memberships, sessions, users, workspaces } from "@db/schema";
+import { apiTokens, emailTokens, invitations, memberships, sessions, signInAttempts, users, workspaces } from "@db/schema";
+import { data } from "react-router";
 import { hashPassword, normaliseEmail } from "./auth.server";
 import { hashSecret, newSecret } from "./tokens.server";
-import { sendMail } from "./mail.server";
+import { queueMail } from "./mail.server";
+import { hitRateLimit } from "./ratelimit.server";
 import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "./mail-templates";
 import type { Role } from "./permissions";
 
@@ -44,6 +46,14 @@ function accountExistsMail(signInUrl: string, resetUrl: string) {
   return { subject: "You already have a Dutymark account", text, html };
 }
 
+/** Sent after a password reset: every device is signed out and every API token revoked. */
+function passwordChangedMail(tokens: number, forgotUrl: string) {
+  const what = `Every device was signed out${tokens ? ` and your ${tokens} API token${tokens === 1 ? " was" : "s were"} revoked` : ""}.`;
+  const text = `Hello,\n\nThe password of your Dutymark account was just changed with a reset link. ${what}\n\nIf it was not you, choose a new password now: ${forgotUrl}\n`;
+  const html = `<p>Hello,</p><p>The password of your Dutymark account was just changed with a reset link. ${escapeHtml(what)}</p><p>If it was not you, <a href="${escapeHtml(forgotUrl)}">choose a new password now</a>.</p>`;
+  return { subject: "Your Dutymark password was changed", text, html };
+}
+
 const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
 
 export function newUserId(): string {
@@ -53,7 +63,7 @@ export function newUserId(): string {
 export type SignUpResult = { ok: true; userId: string } | { ok: false; reason: "exists" };
 
 /** Creates the user and, when a name is given, a workspace they administer; sends the verification mail. */
-export async function signUp(input: { email: string; password: string; name: string; workspaceName?: string }): Promise<SignUpResult> {
+export async function signUp(input: { email: string; password: string; name: string; workspaceName?: string; next?: string }): Promise<SignUpResult> {
   const email = normaliseEmail(input.email);
   const passwordHash = await hashPassword(input.password);
   const userId = newUserId();
@@ -71,15 +81,20 @@ export async function signUp(input: { email: string; password: string; name: str
   });
   if (!created) {
     // Tell the owner of the address, not the person at the form.
-    await sendMail({ to: email, ...accountExistsMail(`${appUrl()}/signin`, `${appUrl()}/forgot`) });
+    await queueMail({ to: email, ...accountExistsMail(`${appUrl()}/signin`, `${appUrl()}/forgot`) });
     return { ok: false, reason: "exists" };
   }
-  await sendVerification(userId);
+  await sendVerification(userId, input.next ?? "");
   return { ok: true, userId };
 }
 
 async function issueEmailToken(userId: string, purpose: "verify" | "reset"): Promise<string> {
   const secret = newSecret();
+  // One link of each kind is valid at a time: a new one retires the older ones.
+  await db()
+    .update(emailTokens)
+    .set({ usedAt: new Date() })
+    .where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt)));
   await db()
     .insert(emailTokens)
     .values({
@@ -91,13 +106,14 @@ async function issueEmailToken(userId: string, purpose: "verify" | "reset"): Pro
   return secret;
 }
 
-export async function sendVerification(userId: string): Promise<void> {
+export async function sendVerification(userId: string, next = ""): Promise<void> {
   const [u] = await db().select().from(users).where(eq(users.id, userId));
   if (!u || u.emailVerified) return;
   const secret = await issueEmailToken(userId, "verify");
-  await sendMail({
+  const after = next ? `&next=${encodeURIComponent(next)}` : "";
+  await queueMail({
     to: u.email,
-    ...verifyAddressMail({ name: u.name, link: `${appUrl()}/verify?token=${secret}`, expiresInHours: EMAIL_TOKEN_TTL.verify / 60 }),
+    ...verifyAddressMail({ name: u.name, link: `${appUrl()}/verify?token=${secret}${after}`, expiresInHours: EMAIL_TOKEN_TTL.verify / 60 }),
   });
 }
 
@@ -116,37 +132,70 @@ async function consumeEmailToken(tx: Db, secret: string, purpose: "verify" | "re
   return affected(r) === 1 ? t.userId : null;
 }
 
-export async function verifyEmail(secret: string): Promise<boolean> {
+/** Confirms the address of the link's user; returns that user's id, or null. */
+export async function verifyEmailUser(secret: string): Promise<string | null> {
   return withTransaction(async (tx) => {
     const userId = await consumeEmailToken(tx, secret, "verify");
-    if (!userId) return false;
+    if (!userId) return null;
     await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
-    return true;
+    return userId;
   });
 }
 
-/** Always behaves the same whether or not the address has an account. */
-export async function requestPasswordReset(emailRaw: string): Promise<void> {
+export async function verifyEmail(secret: string): Promise<boolean> {
+  return (await verifyEmailUser(secret)) !== null;
+}
+
+/** /forgot: at most this many reset mails per account, and requests per client address, per hour. */
+export const FORGOT_LIMITS = { perAccount: 3, perAddress: 10, windowSeconds: 3600 };
+
+/**
+ * Always behaves the same whether or not the address has an account: the mail (if any) goes
+ * through the outbox, never inline. Throttled per address asked about and per client address;
+ * a throttled request also answers the same and sends nothing.
+ */
+export async function requestPasswordReset(emailRaw: string, ip = ""): Promise<void> {
   const email = normaliseEmail(emailRaw);
+  const rule = { limit: FORGOT_LIMITS.perAccount, windowSeconds: FORGOT_LIMITS.windowSeconds };
+  const perAccount = await hitRateLimit(`forgot:acct:${email}`, rule);
+  const perAddress = ip ? await hitRateLimit(`forgot:ip:${ip}`, { ...rule, limit: FORGOT_LIMITS.perAddress }) : null;
+  if (!perAccount.allowed || (perAddress && !perAddress.allowed)) return;
   const [u] = await db().select({ id: users.id, email: users.email }).from(users).where(eq(users.email, email));
   if (!u) return;
   const secret = await issueEmailToken(u.id, "reset");
-  await sendMail({
+  await queueMail({
     to: u.email,
     ...passwordResetMail({ link: `${appUrl()}/reset?token=${secret}`, expiresInMinutes: EMAIL_TOKEN_TTL.reset }),
   });
 }
 
+/**
+ * Sets the new password. Everything that kept access with the old one goes: every session, every
+ * API token, every other reset link, and the failed sign-ins counted against the account; the
+ * owner is told by mail.
+ */
 export async function resetPassword(secret: string, password: string): Promise<boolean> {
   const passwordHash = await hashPassword(password);
-  return withTransaction(async (tx) => {
+  const done = await withTransaction(async (tx) => {
     const userId = await consumeEmailToken(tx, secret, "reset");
-    if (!userId) return false;
+    if (!userId) return null;
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
     await tx.update(users).set({ passwordHash, emailVerified: true }).where(eq(users.id, userId));
-    // Every other device is signed out after a reset.
     await tx.delete(sessions).where(eq(sessions.userId, userId));
-    return true;
+    const revoked = affected(await tx.update(apiTokens).set({ revokedAt: new Date() }).where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt))));
+    await tx.update(emailTokens).set({ usedAt: new Date() }).where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, "reset"), isNull(emailTokens.usedAt)));
+    if (u) await tx.delete(signInAttempts).where(and(eq(signInAttempts.emailKey, u.email), eq(signInAttempts.success, false)));
+    return { email: u?.email, revoked };
   });
+  if (!done) return false;
+  if (done.email) await queueMail({ to: done.email, ...passwordChangedMail(done.revoked, `${appUrl()}/forgot`) });
+  return true;
+}
+
+/** Tokens and invitations need a confirmed address (else anyone could sign up with someone's address and keep a door open). */
+async function requireVerified(userId: string, what: string): Promise<void> {
+  const [u] = await db().select({ v: users.emailVerified }).from(users).where(eq(users.id, userId));
+  if (!u?.v) throw data(`Confirm your e-mail address before ${what}.`, { status: 403 });
 }
 
 export async function createWorkspace(userId: string, name: string): Promise<number> {
@@ -157,6 +206,16 @@ export async function createWorkspace(userId: string, name: string): Promise<num
     await tx.update(users).set({ currentWorkspaceId: id }).where(eq(users.id, userId));
     return id;
   });
+}
+
+/** ISO 4217 currency code of the workspace's tariffs and energy costs (EUR when unset). */
+export async function workspaceCurrency(workspaceId: number): Promise<string> {
+  const [w] = await db().select({ currency: workspaces.currency }).from(workspaces).where(eq(workspaces.id, workspaceId));
+  return w?.currency ?? "EUR";
+}
+
+export async function setWorkspaceCurrency(workspaceId: number, currency: string): Promise<void> {
+  await db().update(workspaces).set({ currency: currency.toUpperCase() }).where(eq(workspaces.id, workspaceId));
 }
 
 export async function renameWorkspace(workspaceId: number, name: string): Promise<void> {
@@ -180,6 +239,7 @@ export async function listInvitations(workspaceId: number) {
 }
 
 export async function invite(input: { workspaceId: number; workspaceName: string; inviterId: string; inviterName: string; email: string; role: Role }) {
+  await requireVerified(input.inviterId, "inviting people");
   const secret = newSecret();
   const email = normaliseEmail(input.email);
   await db()
@@ -192,7 +252,7 @@ export async function invite(input: { workspaceId: number; workspaceName: string
       invitedBy: input.inviterId,
       expiresAt: new Date(Date.now() + INVITE_TTL_DAYS * 86_400_000),
     });
-  await sendMail({
+  await queueMail({
     to: email,
     ...workspaceInviteMail({
       inviterName: input.inviterName || "A colleague",
@@ -224,22 +284,27 @@ export async function findInvitation(secret: string) {
   return row;
 }
 
-/** The signed-in user joins with the invited role; the invitation is used up. */
+/**
+ * The signed-in user joins with the invited role; the invitation is used up. Only the account with
+ * the invited address may accept. Someone already a member keeps their role (role changes are the
+ * admins' job), so no invitation can demote anyone — least of all a workspace's only admin.
+ */
 export async function acceptInvitation(secret: string, userId: string): Promise<{ workspaceId: number } | null> {
+  if (!secret || secret.length > 200) return null;
   return withTransaction(async (tx) => {
     const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashSecret(secret)));
     if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt <= new Date()) return null;
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    if (!u || u.email !== inv.email) return null;
     const r = await tx.update(invitations).set({ acceptedAt: new Date() }).where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt)));
     if (affected(r) !== 1) return null;
     const existing = await tx
       .select({ id: memberships.id })
       .from(memberships)
       .where(and(eq(memberships.workspaceId, inv.workspaceId), eq(memberships.userId, userId)));
-    if (existing.length) await tx.update(memberships).set({ role: inv.role }).where(eq(memberships.id, existing[0].id));
-    else await tx.insert(memberships).values({ workspaceId: inv.workspaceId, userId, role: inv.role });
+    if (!existing.length) await tx.insert(memberships).values({ workspaceId: inv.workspaceId, userId, role: inv.role });
     // Whoever opened the link from their mailbox has shown they read that address.
-    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
-    if (u && u.email === inv.email) await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
+    await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
     await tx.update(users).set({ currentWorkspaceId: inv.workspaceId }).where(eq(users.id, userId));
     return { workspaceId: inv.workspaceId };
   });
@@ -281,6 +346,7 @@ export const API_TOKEN_PREFIX = "dmk_";
 
 /** A new API token: returned once, stored hashed. */
 export async function createApiToken(input: { userId: string; workspaceId: number; name: string; scope: "read" | "write" }) {
+  await requireVerified(input.userId, "creating API tokens");
   const secret = `${API_TOKEN_PREFIX}${newSecret(30)}`;
   const [{ id }] = await db()
     .insert(apiTokens)

@@ -2,9 +2,10 @@
 import { Lucia, TimeSpan, type Session, type User } from "lucia";
 import { DrizzleMySQLAdapter } from "@lucia-auth/adapter-drizzle";
 import { hash, verify } from "@node-rs/argon2";
-import { and, count, eq, gt } from "drizzle-orm";
+import { and, count, eq, gt, max } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { sessions, signInAttempts, users } from "@db/schema";
+import { hashSecret } from "./tokens.server";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
 
@@ -19,7 +20,8 @@ function makeLucia() {
     sessionExpiresIn: new TimeSpan(30, "d"),
     sessionCookie: {
       name: "dm_session",
-      expires: false,
+      // The cookie lives exactly as long as the server-side session (30 days, renewed with it), never longer.
+      expires: true,
       attributes: { secure: cookieSecure(), sameSite: "lax" },
     },
     getUserAttributes: (a) => ({
@@ -67,31 +69,53 @@ export function clientIp(request: Request): string {
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
-export const THROTTLE = { windowMinutes: 15, perAccount: 5, perAddress: 30 };
+/**
+ * Sign-in throttling (common practice, OWASP Authentication Cheat Sheet): failures are counted per
+ * (account, client address) pair within a window; from the `freePerPair`-th failure on, the next try
+ * from that pair must wait 2^(n − freePerPair) s after the last failure, capped at `maxDelaySeconds`.
+ * The owner at another address is never held up by an attacker's failures, and nobody is locked
+ * out for good. An address spraying many accounts is slowed the same way on its own count.
+ */
+export const THROTTLE = { windowMinutes: 15, freePerPair: 3, perAddress: 30, maxDelaySeconds: 900 };
 
-async function recentFailures(column: "email" | "ip", key: string): Promise<number> {
+/** Seconds to wait after the last failure, given n failures in the window. */
+export function throttleDelaySeconds(n: number, free: number): number {
+  if (n < free) return 0;
+  return Math.min(THROTTLE.maxDelaySeconds, 2 ** (n - free));
+}
+
+async function failures(where: ReturnType<typeof and>): Promise<{ n: number; last: Date | null }> {
   const since = new Date(Date.now() - THROTTLE.windowMinutes * 60_000);
-  const col = column === "email" ? signInAttempts.emailKey : signInAttempts.ipAddress;
   const [row] = await db()
-    .select({ n: count() })
+    .select({ n: count(), last: max(signInAttempts.createdAt) })
     .from(signInAttempts)
-    .where(and(eq(col, key), eq(signInAttempts.success, false), gt(signInAttempts.createdAt, since)));
-  return Number(row?.n ?? 0);
+    .where(and(where, eq(signInAttempts.success, false), gt(signInAttempts.createdAt, since)));
+  return { n: Number(row?.n ?? 0), last: row?.last ? new Date(row.last) : null };
+}
+
+/** Seconds the (account, address) pair, or the address alone, must still wait; 0 when free to try. */
+export async function signInWait(email: string, ip: string, now = new Date()): Promise<number> {
+  const pair = await failures(and(eq(signInAttempts.emailKey, email), eq(signInAttempts.ipAddress, ip)));
+  const byAddress = ip ? await failures(eq(signInAttempts.ipAddress, ip)) : { n: 0, last: null };
+  const wait = (f: { n: number; last: Date | null }, free: number) =>
+    f.last ? Math.max(0, Math.ceil((f.last.getTime() + throttleDelaySeconds(f.n, free) * 1000 - now.getTime()) / 1000)) : 0;
+  return Math.max(wait(pair, THROTTLE.freePerPair), wait(byAddress, THROTTLE.perAddress));
 }
 
 export type SignInResult =
   | { ok: true; user: { id: string; emailVerified: boolean } }
-  | { ok: false; reason: "invalid" | "throttled" };
+  | { ok: false; reason: "invalid" }
+  | { ok: false; reason: "throttled"; retryAfter: number };
 
 /**
- * Checks e-mail and password with throttling per account and per address (kept in the database so
- * every app process sees the same counts). The reasons never say whether the e-mail has an account.
+ * Checks e-mail and password with throttling per (account, address) pair and per address (kept in
+ * the database so every app process sees the same counts). The reasons never say whether the
+ * e-mail has an account.
  */
 export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<SignInResult> {
   const email = normaliseEmail(emailRaw);
-  if ((await recentFailures("email", email)) >= THROTTLE.perAccount || (ip && (await recentFailures("ip", ip)) >= THROTTLE.perAddress)) {
-    return { ok: false, reason: "throttled" };
-  }
+  const retryAfter = await signInWait(email, ip);
+  if (retryAfter > 0) return { ok: false, reason: "throttled", retryAfter };
   const [u] = await db()
     .select({ id: users.id, passwordHash: users.passwordHash, emailVerified: users.emailVerified })
     .from(users)
@@ -137,6 +161,17 @@ export async function endSession(request: Request): Promise<string> {
   const auth = await getAuth(request);
   if (auth) await lucia().invalidateSession(auth.session.id);
   return lucia().createBlankSessionCookie().serialize();
+}
+
+/** The id shown for a session on the account page: a hash, never the session id (which is the cookie's value). */
+export function deviceId(sessionId: string): string {
+  return hashSecret(`device:${sessionId}`).slice(0, 32);
+}
+
+/** Signs out the user's session whose device id is `device`. */
+export async function revokeDevice(userId: string, device: string): Promise<boolean> {
+  const s = (await listSessions(userId)).find((x) => deviceId(x.id) === device);
+  return s ? revokeSession(userId, s.id) : false;
 }
 
 export async function listSessions(userId: string) {

@@ -204,6 +204,10 @@ export async function handleStripeWebhook(rawBody: string, signature: string | n
     if (e instanceof Stripe.errors.StripeSignatureVerificationError) return bad(`Signature check failed: ${e.message}`);
     return bad("The body is not a Stripe event.");
   }
+  // Signed is not the same as well-formed: the columns hold ids and types up to 80 characters.
+  if (typeof event.id !== "string" || !event.id || event.id.length > 80 || typeof event.type !== "string" || event.type.length > 80 || !Number.isFinite(event.created)) {
+    return bad("The event's id, type or created time is missing or too long.");
+  }
   const target = await locate(event);
   try {
     return await withTransaction(async (tx) => {

@@ -1,7 +1,8 @@
 // Cross-site request forgery: every state-changing request must come from our own origin.
 // Browsers send Origin on POST (and Sec-Fetch-Site); a request with neither and a session cookie
-// is refused. Bearer-token API calls carry no ambient credentials and are exempt, as is the
-// Stripe webhook, which is verified by its signature instead.
+// is refused. Bearer-token API calls carry no ambient credentials and are exempt — but only when
+// no session cookie rides along (a cookie is what a forged cross-site request would bring) — as is
+// the Stripe webhook, which is verified by its signature instead.
 const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
 const EXEMPT_PATHS = ["/api/stripe/webhook"];
 // The public calculators (/api/v1/calc/<name>) read no cookies and change nothing: anonymous
@@ -13,7 +14,8 @@ export function csrfRefusal(request: Request): string | null {
   const url = new URL(request.url);
   if (EXEMPT_PATHS.includes(url.pathname) || EXEMPT_PATTERNS.some((re) => re.test(url.pathname))) return null;
   const authz = request.headers.get("authorization") ?? "";
-  if (/^bearer\s+/i.test(authz)) return null;
+  const hasSessionCookie = /(?:^|;)\s*dm_session=[^;\s]/.test(request.headers.get("cookie") ?? "");
+  if (/^bearer\s+/i.test(authz) && !hasSessionCookie) return null;
   const allowed = new Set([url.origin]);
   if (process.env.APP_URL) allowed.add(new URL(process.env.APP_URL).origin);
   const origin = request.headers.get("origin");

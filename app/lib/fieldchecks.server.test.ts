@@ -83,21 +83,24 @@ describe("head from readings (hand-worked)", () => {
 
 describe("verdict boundaries, per grade (just inside / just outside)", () => {
   // Curve H(Q) = 40 − 1000·Q (m, m³/s), flow meter Qm = 0.012 m³/s, speed as rated. A point passes a
-  // grade when some curve flow Q in [Qm/(1 + b), Qm/(1 − a)] has H within (1 − c)·H .. (1 + d)·H
-  // (ISO 9906 grades from memory, as in TOLERANCE_GRADES). On a falling curve the highest head
-  // allowed is (1 + d)·H(Qm/(1 + b)) and the lowest (1 − c)·H(Qm/(1 − a)). Worked for 2B (a = b = 8 %,
-  // c = d = 5 %): Qm/1.08 = 0.011111 → H = 28.889 → upper 30.333 m; Qm/0.92 = 0.013043 → H = 26.957 → lower 25.609 m.
+  // grade when it meets either arm of the tolerance cross (ISO 9906:2012 6.4.2, from memory; grades as in
+  // TOLERANCE_GRADES): head arm — Hm within (1 − c)..(1 + d) × H(Qm); flow arm — Qm within (1 − a)..(1 + b)
+  // × Q(Hm), i.e. Hm within 40 − 1000·Qm/(1 − a) .. 40 − 1000·Qm/(1 + b). Worked for 2B (a = b = 8 %,
+  // c = d = 5 %): H(Qm) = 28 → head arm 26.6..29.4 m; flow arm 26.957..28.889 m → upper 29.4 m, lower 26.6 m.
   const f = frozenFixture();
   const H = (q: number) => 40 - 1000 * q;
   const Qm = 0.012;
-  const bounds = (g: ToleranceGrade) => ({ upper: (1 + g.head[1]) * H(Qm / (1 + g.flow[1])), lower: (1 - g.head[0]) * H(Qm / (1 - g.flow[0])) });
+  const bounds = (g: ToleranceGrade) => ({
+    upper: Math.max((1 + g.head[1]) * H(Qm), 40 - (1000 * Qm) / (1 + g.flow[1])),
+    lower: Math.min((1 - g.head[0]) * H(Qm), g.flow[0] >= 1 ? -Infinity : 40 - (1000 * Qm) / (1 - g.flow[0])),
+  });
   const verdictAt = (head: number, gradeId: string, extra: Record<string, string> = {}) =>
     evaluateCheck(f, readingsFromFields(fieldsForHead(head, RHO20, { flow: String(Qm), ...extra })), gradeId).verdict;
 
   test("2B bounds by hand", () => {
     const b = bounds(TOLERANCE_GRADES.find((g) => g.id === "2B")!);
-    expect(b.upper).toBeCloseTo(30.333, 3);
-    expect(b.lower).toBeCloseTo(25.609, 3);
+    expect(b.upper).toBeCloseTo(29.4, 3);
+    expect(b.lower).toBeCloseTo(26.6, 3);
   });
 
   for (const g of TOLERANCE_GRADES) {

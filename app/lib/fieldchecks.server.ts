@@ -33,6 +33,8 @@ import type { Viewer } from "./libraries.server";
 import { sendMail } from "./mail.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "./mail-templates";
 import { appUrl } from "./accounts.server";
+import { toCsv } from "./csv";
+import type { CheckResult, Pt } from "./fieldcheck-result";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 export { DEFAULT_GRADE, MAX_PHOTOS, MAX_PHOTO_BYTES, VERDICT_TEXT, type Verdict } from "./fieldcheck-form";
@@ -44,30 +46,7 @@ export function gradeById(id: string): ToleranceGrade | null {
 }
 
 // ── The check itself (pure: no database) ───────────────────────────────────────────────────
-type Pt = { flow: number; y: number };
-
-export type CheckResult = {
-  format: string;
-  grade: { id: string; flow: readonly [number, number]; head: readonly [number, number]; source: string };
-  verdict: Verdict;
-  verdictText: string;
-  message: string;
-  engine: FieldCheckResult;
-  fluid: { name: string; density: number };
-  /** rpm: the curve's rated speed, the selection's design speed, the measured speed; ratio measured / rated. */
-  speed: { rated: number | null; design: number | null; measured: number | null; rescaled: boolean; designRatio: number | null };
-  /** Gauge pressures on one reference (gauge), Pa, and the head uncertainty, m. */
-  gauges: { suction: number; discharge: number; headUncertainty: number; assumedAtmosphere: boolean };
-  /** Per-pump design duty, m³/s and m (from the system's duty, or the selection's operating point). */
-  duty: { flow: number; head: number } | null;
-  delivered: { flow: number | null; head: number };
-  /** Fractions: measured vs the rescaled curve and vs the design duty. */
-  deviation: { curveFlow: number | null; curveHead: number | null; dutyFlow: number | null; dutyHead: number | null };
-  power: { input: number | null; hydraulic: number | null; overall: number | null; shaft: number | null; pump: number | null; curve: number | null } | null;
-  hints: string[];
-  warnings: string[];
-  chart: { selected: Pt[]; measured: Pt[]; selectedEff: Pt[]; measuredEff: Pt[]; system: Pt[] | null; flowMax: number; band: { low: number | null; high: number | null } | null; selectedLabel: string; measuredLabel: string };
-};
+export type { CheckResult } from "./fieldcheck-result";
 
 
 /** One pump's curve as selected (trim applied; speed ratio returned separately). */
@@ -534,13 +513,7 @@ async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fie
 }
 
 // ── History CSV ────────────────────────────────────────────────────────────────────────────
-const cell = (x: unknown) => {
-  if (x == null) return "";
-  let s = typeof x === "number" ? (Number.isFinite(x) ? String(+x.toPrecision(8)) : "") : String(x);
-  if (typeof x === "string" && /^[=+\-@\t\r]/.test(s)) s = `'${s}`; // no formulas from free text in a spreadsheet
-  return /[",\n\r;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-};
-const csvRow = (xs: unknown[]) => xs.map(cell).join(",");
+const csvRow = (xs: unknown[]) => xs;
 
 export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string {
   const lines = [
@@ -550,6 +523,7 @@ export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string 
       "check_id", "chain_id", "version", "superseded", "recorded_at", "recorded_by", "workspace", "verdict", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
+      "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "notes",
     ]),
   ];
@@ -560,11 +534,12 @@ export function historyCsv(h: Awaited<ReturnType<typeof checkHistory>>): string 
         c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
+        c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
         r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, c.notes,
       ]),
     );
   }
-  return lines.join("\r\n") + "\r\n";
+  return toCsv(lines, { precision: 8 });
 }
 
 // ── Sharing ────────────────────────────────────────────────────────────────────────────────

@@ -3,17 +3,61 @@ import { data } from "react-router";
 
 export type FieldErrors = Record<string, string>;
 
+// ── One way to read what a request brings: ids, query strings, bodies ──────────────────────────
+// Page routes let the thrown data() become the error page (404/400); API routes turn it into
+// problem+json with asProblem() (app/lib/api-errors.server.ts). Nothing here ever becomes a 500.
+
+/** A path or form id: 1–15 digits (safe integer), else null. */
+export function parseId(raw: unknown): number | null {
+  if (typeof raw !== "string" || !/^\d{1,15}$/.test(raw)) return null;
+  return Number(raw);
+}
+
+/** The id in a route path (`params.id`): anything that is not a plain number is a page that does not exist (404). */
+export function readId(raw: string | undefined): number {
+  const id = parseId(raw);
+  if (id === null) throw data("Nothing lives at this address.", { status: 404 });
+  return id;
+}
+
+/** An id field of a form body: a bad one is a 400. */
+export function formId(form: FormData, key: string): number {
+  const id = parseId(form.get(key));
+  if (id === null) throw data({ errors: { [key]: "Bad id." } }, { status: 400 });
+  return id;
+}
+
+/** A query-string value, trimmed and capped (long or control-character values never reach a service). */
+export function readQuery(url: URL | string, key: string, max = 200): string {
+  const u = typeof url === "string" ? new URL(url) : url;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is dropped
+  return (u.searchParams.get(key) ?? "").replace(/[\u0000-\u001f\u007f]/g, "").trim().slice(0, max);
+}
+
+/** The request body as FormData (urlencoded or multipart); a malformed body is a 400, never a 500. */
+export async function readFormSafe(request: Request): Promise<FormData> {
+  try {
+    return await request.formData();
+  } catch {
+    throw data({ errors: { _form: "The form could not be read." } }, { status: 400 });
+  }
+}
+
+/** The request body as JSON; a malformed body is a 400. */
+export async function readJsonSafe(request: Request): Promise<unknown> {
+  try {
+    return await request.json();
+  } catch {
+    throw data("The body must be JSON.", { status: 400 });
+  }
+}
+
 /** Reads a form body and validates it with a valibot object schema. Oversized bodies are refused upstream (middleware). */
 export async function readForm<S extends v.GenericSchema>(
   request: Request,
   schema: S,
 ): Promise<{ ok: true; value: v.InferOutput<S>; form: FormData } | { ok: false; errors: FieldErrors; form: FormData }> {
-  let form: FormData;
-  try {
-    form = await request.formData();
-  } catch {
-    throw data({ errors: { _form: "The form could not be read." } }, { status: 400 });
-  }
+  const form = await readFormSafe(request);
   const obj: Record<string, unknown> = {};
   for (const [k, val] of form.entries()) if (typeof val === "string") obj[k] = val;
   const r = v.safeParse(schema, obj);
@@ -39,8 +83,21 @@ export const Name = (label: string, max = 120) =>
   v.pipe(v.string(`Enter ${label}.`), v.trim(), v.minLength(1, `Enter ${label}.`), v.maxLength(max, `Keep ${label} under ${max} characters.`));
 export const IdField = v.pipe(v.string(), v.regex(/^\d{1,15}$/, "Bad id."), v.transform(Number));
 
-/** Only local paths may be returned to after sign-in (no open redirect). */
+/**
+ * Only local paths may be returned to after sign-in (no open redirect). Browsers drop tabs and
+ * newlines and read a backslash as a slash, so any control character, whitespace or backslash is
+ * refused outright, and the result is re-read as a URL that must stay on our origin.
+ */
 export function safeNext(next: string | null | undefined, fallback = "/"): string {
-  if (!next || !next.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return fallback;
-  return next;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is refused
+  if (!next || next.length > 2000 || !next.startsWith("/") || /[\u0000-\u0020\u007f\\]/.test(next)) return fallback;
+  if (next.startsWith("//")) return fallback;
+  try {
+    const base = "http://dutymark.invalid";
+    const u = new URL(next, base);
+    if (u.origin !== base) return fallback;
+    return u.pathname + u.search + u.hash;
+  } catch {
+    return fallback;
+  }
 }

@@ -6,6 +6,7 @@ import {
   createPumpCurve,
   EngineInputError,
   fluidAt,
+  headAt,
   material as materialOf,
   operatingFigures,
   pipeHeadLoss,
@@ -20,13 +21,19 @@ import {
   systemHeadFunction,
   trimForDuty,
   STANDARD_ATMOSPHERE,
+  DEFAULT_FLOW_TOLERANCE,
+  DEFAULT_IE_CLASS,
+  IE_CLASSES,
+  type CatalogueLimits,
   type EngineWarning,
+  type Verdict,
   type Fluid,
   type PipeRunSpec,
   type PumpCurve,
   type PumpPoint,
   type SystemSpec,
 } from "~/engine";
+import { bandPoints, GOVERNING_CASE, governingName, motorFigures, verdictOnBand, type BandPoint, type MotorFigures } from "./candidate-judgement";
 
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
 const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
@@ -88,6 +95,14 @@ export const SystemInputSchema = v.object({
   tariffPerKWh: nonNeg("Energy tariff"),
   /** Required NPSH margin ratio NPSHa/NPSHr (dimensionless). */
   npshMargin: v.pipe(num("NPSH margin"), v.minValue(1, "The NPSH margin ratio is at least 1.")),
+  /** Duty flow tolerance, fractions of the duty flow (default −0/+0.10; documents stored before it parse with the default). */
+  flowTolerance: v.optional(
+    v.object({
+      minus: v.pipe(nonNeg("Flow tolerance below"), v.maxValue(0.5, "Flow tolerance below the duty: at most 50 %.")),
+      plus: v.pipe(nonNeg("Flow tolerance above"), v.maxValue(1, "Flow tolerance above the duty: at most 100 %.")),
+    }),
+    { ...DEFAULT_FLOW_TOLERANCE },
+  ),
 });
 
 export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
@@ -130,6 +145,7 @@ export function defaultSystemInput(): SystemInput {
     hoursPerYear: 4000,
     tariffPerKWh: 0.2,
     npshMargin: 1.1,
+    flowTolerance: { ...DEFAULT_FLOW_TOLERANCE },
   };
 }
 
@@ -175,6 +191,38 @@ export function flowMaxOf(input: SystemInput, pumpFlowMax = 0): number {
   return Math.max(fromDuty, pumpFlowMax * 1.05, 1e-4);
 }
 
+/**
+ * Largest flow one candidate can reach, m³/s: its own curve's last flow × its own duty pumps in
+ * parallel × its speed ratio when above 1 (affinity laws, Q ∝ N). Trims only shorten the curve.
+ */
+export function candidateFlowEnd(c: { set: { points: readonly { flow: number }[] }; adjustment: Adjustment }): number {
+  const end = c.set.points[c.set.points.length - 1]?.flow ?? 0;
+  const a = c.adjustment;
+  const n = a.arrangement === "parallel" ? a.dutyPumps : 1;
+  const r = a.method === "speed" && a.ratio != null ? Math.max(1, a.ratio) : 1;
+  return Number.isFinite(end) && end > 0 ? end * n * r : 0;
+}
+
+/** Largest flow any of the candidates reaches, each with its own arrangement (never one pump's curve × another's pump count). */
+export function candidatesFlowMax(cands: readonly { set: { points: readonly { flow: number }[] }; adjustment: Adjustment }[]): number {
+  return cands.reduce((m, c) => Math.max(m, candidateFlowEnd(c)), 0);
+}
+
+/**
+ * Flow range for a chart or report of one evaluated candidate, m³/s: its evaluated (adjusted,
+ * combined) curve's end and its operating points, with the duty (see flowMaxOf); other
+ * candidates never widen it.
+ */
+export function resultFlowMax(input: SystemInput, result: { curve: readonly { flow: number }[]; operating: { flow: number } | null; allIntersections?: readonly { flow: number }[] } | null): number {
+  let pump = 0;
+  if (result) {
+    for (const p of [result.curve[result.curve.length - 1], result.operating, ...(result.allIntersections ?? [])]) {
+      if (p && Number.isFinite(p.flow) && p.flow > pump) pump = p.flow;
+    }
+  }
+  return flowMaxOf(input, pump);
+}
+
 export type RunReport = {
   name: string;
   side: "suction" | "discharge";
@@ -200,7 +248,42 @@ export type SystemEvaluation = {
   warnings: string[];
   fluid: { density: number; kinematicViscosity: number; vaporPressure: number };
   npsha: { flow: number; y: number }[];
+  /** The typed duty head against the system curve's head at the duty flow (null without a duty). */
+  dutyCheck: DutyCheck | null;
 };
+
+export type DutyCheck = {
+  typedHead: number;
+  /** System head at the duty flow on the design curve (nominal level, new pipe) and at the governing edge, m. */
+  designHead: number;
+  governingHead: number;
+  governingEdge: string;
+  /** (typed − governing)/governing, fraction. */
+  difference: number;
+  /** More than 3 % apart (common practice: a duty read off a different curve). */
+  differs: boolean;
+  message: string;
+  /** Which head each solve uses, in words. */
+  governs: string;
+};
+
+/** Typed duty head against the system at the duty flow; 3 % threshold (common practice). */
+export const DUTY_HEAD_THRESHOLD = 0.03;
+
+export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prepareSystem>): DutyCheck | null {
+  if (!input.duty) return null;
+  const designHead = systemHeadFunction(prepared)(input.duty.flow);
+  const governingHead = systemHeadFunction(prepared, GOVERNING_CASE)(input.duty.flow);
+  const edge = governingName(input.mode);
+  const difference = (input.duty.head - governingHead) / governingHead;
+  const differs = Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
+  const q = `${(input.duty.flow * 3600).toFixed(1)} m³/h`;
+  const message = differs
+    ? `The typed duty head ${input.duty.head.toFixed(1)} m differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${governingHead.toFixed(1)} m at ${edge} (${designHead.toFixed(1)} m on the design curve). More than 3 % apart: check the duty or the pipe runs.`
+    : `The typed duty head ${input.duty.head.toFixed(1)} m agrees within 3 % with the system's ${governingHead.toFixed(1)} m at ${q} (${edge}).`;
+  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${governingHead.toFixed(1)} m, ${edge}); the pump search uses the typed duty head (${input.duty.head.toFixed(1)} m).`;
+  return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
+}
 
 const wText = (w: EngineWarning[]) => w.map((x) => x.message);
 
@@ -244,6 +327,7 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     warnings: [...wText(prepared.warnings), ...wText(curve.warnings)],
     fluid: { density: fluid.density, kinematicViscosity: fluid.kinematicViscosity, vaporPressure: fluid.vaporPressure },
     npsha,
+    dutyCheck: dutyCheckOf(input, prepared),
   };
 }
 
@@ -258,9 +342,11 @@ export const AdjustmentSchema = v.object({
   /** Motor rating W (0: not set) and service factor. */
   motorRating: v.pipe(v.number(), v.finite(), v.minValue(0)),
   serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1), v.maxValue(1.5)),
+  /** Motor efficiency class (IEC 60034-30-1); adjustments stored before it parse as IE3. */
+  ieClass: v.optional(v.picklist(IE_CLASSES), DEFAULT_IE_CLASS),
 });
 export type Adjustment = v.InferOutput<typeof AdjustmentSchema>;
-export const DEFAULT_ADJUSTMENT: Adjustment = { method: "none", ratio: null, arrangement: "single", dutyPumps: 1, standbyPumps: 0, motorRating: 0, serviceFactor: 1 };
+export const DEFAULT_ADJUSTMENT: Adjustment = { method: "none", ratio: null, arrangement: "single", dutyPumps: 1, standbyPumps: 0, motorRating: 0, serviceFactor: 1, ieClass: DEFAULT_IE_CLASS };
 
 export type CurvePointsIn = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
 
@@ -290,12 +376,21 @@ export type CandidateEvaluation = {
     motorLimit: number | null;
     nonOverloading: boolean | null;
     motorLoadAtDuty: number | null;
+    /** From the electrical input (shaft / (motor η × drive η)). */
     annualEnergyKWh: number | null;
     annualCost: number | null;
+    motor: MotorFigures;
   } | null;
   por: { minFlow: number; maxFlow: number } | null;
+  /** Operating points at both edges of the system band (least flow edge decides the verdict). */
+  band: BandPoint[];
+  /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
+  verdict: Verdict | null;
   warnings: string[];
 };
+
+/** What the model publishes, for the catalogue rule (SI; null when not known). */
+export type CatalogueData = { impellerMin: number | null; impellerMax: number | null; ratedSpeed: number | null };
 
 /** Stored curve points (nullable columns) as engine points (absent columns left out). */
 export function toPumpPoints(points: CurvePointsIn): PumpPoint[] {
@@ -313,12 +408,15 @@ export function evaluateCandidate(
   input: SystemInput,
   set: { points: CurvePointsIn; speed: number | null; impellerDiameter: number | null },
   adj: Adjustment,
+  opts: { catalogue?: CatalogueData | null; currency?: string } = {},
 ): CandidateEvaluation {
   const warnings: string[] = [];
   const base = createPumpCurve({ points: toPumpPoints(set.points), speed: set.speed ?? undefined, impellerDiameter: set.impellerDiameter ?? undefined, riseTolerance: 1 });
   const spec = systemSpec(input);
   const prepared = prepareSystem(spec);
   const sysHead = systemHeadFunction(prepared);
+  // Speed/trim solves aim at the band's demanding edge, where the verdict is judged.
+  const governingHead = systemHeadFunction(prepared, GOVERNING_CASE);
   let ratio = 1;
   let ratioNote: string | null = null;
   let curve: PumpCurve = base;
@@ -327,14 +425,19 @@ export function evaluateCandidate(
     if (adj.ratio != null) ratio = adj.ratio;
     else if (input.duty) {
       // Solve on one pump's share of the duty.
-      const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: sysHead(input.duty.flow) } : adj.arrangement === "series" ? { flow: input.duty.flow, head: sysHead(input.duty.flow) / n } : { flow: input.duty.flow, head: sysHead(input.duty.flow) };
+      const hSys = governingHead(input.duty.flow);
+      const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: input.duty.flow, head: hSys / n } : { flow: input.duty.flow, head: hSys };
       const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
       warnings.push(...wText(sol.warnings));
+      const where = `the system's head at the duty flow ${(input.duty.flow * 3600).toFixed(1)} m³/h, ${hSys.toFixed(1)} m at ${governingName(input.mode)} (typed duty head ${input.duty.head.toFixed(1)} m)`;
       if (sol.status === "ok" && sol.ratio) {
         ratio = sol.ratio;
-        ratioNote = `solved to put the operating point on the duty flow`;
+        ratioNote = `solved to deliver the duty flow against ${where}`;
+      } else if (sol.status === "duty-above-curve") {
+        const h1 = perPump.flow >= base.flowMin && perPump.flow <= base.flowMax ? headAt(base, perPump.flow) : null;
+        ratioNote = `could not be solved: ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${h1.toFixed(1)} m per pump at ${(perPump.flow * 3600).toFixed(1)} m³/h)` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it`;
       } else {
-        ratioNote = `could not be solved: ${sol.message}`;
+        ratioNote = `could not be solved against ${where}: ${sol.message}`;
       }
     }
     const scaled = adj.method === "speed" ? scaleBySpeed(base, ratio) : scaleByTrim(base, ratio);
@@ -371,11 +474,26 @@ export function evaluateCandidate(
       fluid: prepared.fluid,
       suction: { surfacePressure: input.suctionSurfacePressure, staticSuctionHead: input.suctionStaticHead, suctionLoss: sl },
       requiredMargin: input.npshMargin,
-      motor: adj.motorRating > 0 ? { rating: adj.motorRating, serviceFactor: adj.serviceFactor } : undefined,
-      energy: input.hoursPerYear > 0 ? { hoursPerYear: input.hoursPerYear, tariffPerKWh: input.tariffPerKWh } : undefined,
     });
     warnings.push(...wText(f.warnings));
     const k = adj.arrangement === "single" ? 1 : n;
+    const motor = motorFigures({
+      shaftPower: f.shaftPower != null ? f.shaftPower * k : null,
+      maxCurvePower: f.maxPower?.power ?? null,
+      pumps: k,
+      userRating: adj.motorRating,
+      serviceFactor: adj.serviceFactor,
+      ieClass: adj.ieClass ?? DEFAULT_IE_CLASS,
+      speedDrive: adj.method === "speed",
+      ratedSpeed: set.speed ?? opts.catalogue?.ratedSpeed ?? null, // the curve's own speed sets the motor's poles
+      hoursPerYear: input.hoursPerYear,
+      tariffPerKWh: input.tariffPerKWh,
+      currency: opts.currency ?? "",
+    });
+    warnings.push(...motor.warnings);
+    const limit = motor.rating != null ? motor.rating * adj.serviceFactor : null;
+    const nonOverloading = limit != null && f.maxPower ? f.maxPower.power <= limit : null;
+    if (nonOverloading === false) warnings.push(`largest power on the curve ${(f.maxPower!.power / 1000).toFixed(2)} kW exceeds motor rating × service factor ${(limit! / 1000).toFixed(2)} kW`);
     figures = {
       efficiency: f.efficiency,
       hydraulicPower: f.hydraulicPower * k,
@@ -389,17 +507,32 @@ export function evaluateCandidate(
       npshMarginRatio: f.npsh?.marginRatio ?? null,
       npshStatus: f.npsh?.status ?? null,
       maxPower: f.maxPower?.power ?? null,
-      motorLimit: f.motor?.limit ?? null,
-      nonOverloading: f.motor?.nonOverloading ?? null,
-      motorLoadAtDuty: f.motor?.loadAtDuty ?? null,
-      annualEnergyKWh: f.energy ? f.energy.annualEnergyKWh * k : null,
-      annualCost: f.energy ? f.energy.annualCost * k : null,
+      motorLimit: limit,
+      nonOverloading,
+      motorLoadAtDuty: motor.rating != null && f.shaftPower != null ? f.shaftPower / motor.rating : null,
+      annualEnergyKWh: motor.annualEnergyKWh,
+      annualCost: motor.annualCost,
+      motor,
     };
     if (f.bep) {
       const m = adj.arrangement === "parallel" ? n : 1;
       por = { minFlow: f.bep.flow * 0.7 * m, maxFlow: f.bep.flow * 1.2 * m };
     }
   }
+  const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead } };
+  const band = bandPoints(ctx);
+  const cat = opts.catalogue;
+  const catalogue: CatalogueLimits | undefined = cat
+    ? {
+        diameter: set.impellerDiameter != null ? set.impellerDiameter * (adj.method === "trim" ? ratio : 1) : null,
+        minDiameter: cat.impellerMin,
+        maxDiameter: cat.impellerMax,
+        speed: set.speed != null && cat.ratedSpeed != null ? set.speed * (adj.method === "speed" ? ratio : 1) : null,
+        ratedSpeed: cat.ratedSpeed,
+        speedRatio: adj.method === "speed" && (set.speed == null || cat.ratedSpeed == null) ? ratio : null,
+      }
+    : adj.method === "speed" ? { speedRatio: ratio } : undefined;
+  const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue);
   return {
     status: op.status,
     message: op.message,
@@ -412,6 +545,8 @@ export function evaluateCandidate(
     allIntersections: op.points,
     figures,
     por,
+    band,
+    verdict,
     warnings: [...new Set(warnings)],
   };
 }

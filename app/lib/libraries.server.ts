@@ -7,10 +7,12 @@ import type { PoolConnection } from "mariadb";
 import { db, withTransaction } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, selections, uploads, workspaces, type Visibility } from "@db/schema";
 import { bulkField, bulkLoad, bulkText } from "./bulk-load.server";
-import { analyseCsv, decodeBytes, ENCODINGS, looksBinary, MappingSchema, type AnalyseResult, type Decoded, type Encoding, type Mapping } from "./import";
+import { analyseCsv, decodeBytes, looksBinary } from "./import";
+import { encodingOf } from "./upload-analysis";
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
-import * as v from "valibot";
+import { sweepPendingUploads } from "./uploads.server";
+import { toCsv } from "./csv";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -146,6 +148,7 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
 /** Keeps bytes as an upload of the library with their SHA-256 (the caller checked the library and the bytes). */
 export async function insertUpload(viewer: Viewer, libraryId: number, filename: string, bytes: Buffer): Promise<number> {
   const sha256 = createHash("sha256").update(bytes).digest("hex");
+  await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
   const [{ id }] = await db()
     .insert(uploads)
     .values({ libraryId, filename: filename.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
@@ -164,52 +167,9 @@ export async function getUpload(viewer: Viewer, libraryId: number, uploadId: num
   return { lib, upload: u, text: decoded.text, decoded };
 }
 
-/** The encoding a mapping asks for, if it is a valid one (mappings come from forms and saved JSON). */
-function encodingOf(mapping: unknown): Encoding | undefined {
-  const e = (mapping as { encoding?: unknown } | null | undefined)?.encoding;
-  return typeof e === "string" && (ENCODINGS as readonly string[]).includes(e) ? (e as Encoding) : undefined;
-}
-
-/** The saved mapping of the library when it still fits the file's headers, else null. */
-export function savedMappingFor(lib: { mappingJson: string | null }, headers: string[]): Mapping | null {
-  if (!lib.mappingJson) return null;
-  try {
-    const m = v.parse(MappingSchema, JSON.parse(lib.mappingJson));
-    const norm = (h: string | undefined) => (h ?? "").trim().toLowerCase();
-    return m.columns.every((c) => norm(headers[c.index]) === norm(c.header)) ? m : null;
-  } catch {
-    return null;
-  }
-}
-
-export type StoredAnalysis = AnalyseResult & { mappingSource: "form" | "saved" | "suggested"; decoded: Decoded };
-
-/**
- * Analyses the stored upload on the server with the given mapping (or the saved one, or the
- * suggestion). Given the stored bytes, it decodes them in the mapping's encoding (or detects it).
- */
-export function analyseStored(source: string | Uint8Array, lib: { mappingJson: string | null }, mapping?: unknown): StoredAnalysis {
-  const decodedAs = (m: unknown): Decoded =>
-    typeof source === "string" ? { text: source, encoding: "utf-8", bom: false, how: "valid-utf-8" } : decodeBytes(source, encodingOf(m));
-  const out = (a: AnalyseResult, mappingSource: StoredAnalysis["mappingSource"], decoded: Decoded): StoredAnalysis =>
-    Object.assign(a, { mappingSource, decoded }); // (not a spread: `rows` is a lazy getter)
-  if (mapping !== undefined) {
-    const d = decodedAs(mapping);
-    return out(analyseCsv(d.text, mapping), "form", d);
-  }
-  const d = decodedAs(undefined);
-  const first = analyseCsv(d.text);
-  const saved = savedMappingFor(lib, first.sniff.headers);
-  if (saved) {
-    try {
-      const ds = decodedAs(saved);
-      return out(analyseCsv(ds.text, saved), "saved", ds);
-    } catch {
-      /* fall through to the suggestion */
-    }
-  }
-  return out(first, "suggested", d);
-}
+// The analysis of a stored upload is pure and also runs in the mapping page's worker thread: it
+// lives in upload-analysis.ts; the server and scripts reach it from here as before.
+export { analyseStored, encodingOf, savedMappingFor, type StoredAnalysis } from "./upload-analysis";
 
 const POINT_BATCH = 5000; // insertPoints (kept for the benchmark's comparison rows)
 
@@ -353,6 +313,10 @@ export type LibraryCurveSet = {
   nominalSize: string;
   speed: number | null;
   impellerDiameter: number | null;
+  /** What the model publishes across its curve sets (m, m, rpm; null when not given): the catalogue limits of the verdict. */
+  impellerMin: number | null;
+  impellerMax: number | null;
+  ratedSpeed: number | null;
   points: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
 };
 
@@ -415,6 +379,9 @@ async function loadCurves(revisionIds: number[], curveSetIds?: number[]): Promis
       nominalSize: s.model.nominalSize,
       speed: s.set.speed,
       impellerDiameter: s.set.impellerDiameter,
+      impellerMin: s.model.impellerMin,
+      impellerMax: s.model.impellerMax,
+      ratedSpeed: s.model.ratedSpeed,
       points: [],
     });
   }
@@ -514,15 +481,12 @@ export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,hea
 
 /** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
-  const q = (x: string) => (/[",\n]/.test(x) ? `"${x.replace(/"/g, '""')}"` : x);
-  const n = (x: number | null, scale: number, digits: number) => (x == null ? "" : String(+(x * scale).toFixed(digits)));
-  const lines = [EXPORT_HEADER];
+  const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));
+  const rows: unknown[][] = [EXPORT_HEADER.split(",")];
   for (const c of curves) {
     for (const p of c.points) {
-      lines.push(
-        [q(c.model), q(c.type), q(c.nominalSize), n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)].join(","),
-      );
+      rows.push([c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)]);
     }
   }
-  return lines.join("\n") + "\n";
+  return toCsv(rows, { newline: "\n" });
 }

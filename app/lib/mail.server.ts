@@ -13,7 +13,7 @@
 //   MAILBOX_API_URL  the SMTP stand-in's HTTP API, read by the development mailbox page.
 import nodemailer, { type Transporter } from "nodemailer";
 import { and, desc, eq, isNull, lt, sql } from "drizzle-orm";
-import { db } from "@db/client.server";
+import { db, retryOnConflict } from "@db/client.server";
 import { outbox } from "@db/schema";
 
 export type MailMessage = { to: string; subject: string; text: string; html: string };
@@ -119,10 +119,14 @@ type OutboxRow = typeof outbox.$inferSelect;
  * two workers (the sender and the flusher, or two app processes) never send the same row twice.
  */
 async function claim(id: number, attemptsSeen: number): Promise<boolean> {
-  const res = (await db()
-    .update(outbox)
-    .set({ attempts: sql`${outbox.attempts} + 1` })
-    .where(and(eq(outbox.id, id), eq(outbox.attempts, attemptsSeen), isNull(outbox.sentAt)))) as unknown;
+  // A certification conflict on a Galera cluster (another node claimed it first) is retried: the
+  // repeated update then finds `attempts` raised and claims nothing.
+  const res = (await retryOnConflict(() =>
+    db()
+      .update(outbox)
+      .set({ attempts: sql`${outbox.attempts} + 1` })
+      .where(and(eq(outbox.id, id), eq(outbox.attempts, attemptsSeen), isNull(outbox.sentAt))),
+  )) as unknown;
   const header = (Array.isArray(res) ? res[0] : res) as { affectedRows?: number } | undefined;
   return (header?.affectedRows ?? 0) === 1;
 }
@@ -177,6 +181,34 @@ export async function sendMail(message: MailMessage): Promise<SendOutcome> {
   const error = await deliver({ id, toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html }, url);
   if (error) logOnce(`send:${error}`, `outbox row ${id} not sent yet (${error}); it will be retried`);
   return error ? { id, sent: false, error } : { id, sent: true };
+}
+
+/**
+ * Writes the message to the outbox and returns at once: delivery happens after the request, from a
+ * background kick (setImmediate) and the periodic flusher. Account mail uses this, so a request
+ * takes the same time whether or not a message was written, and never waits on an SMTP server.
+ * Under vitest the kick is off unless MAIL_FLUSH_INTERVAL_MS is set (tests flush by hand).
+ */
+export async function queueMail(message: MailMessage): Promise<{ id: number }> {
+  const m = validate(message);
+  const [{ id }] = await db()
+    .insert(outbox)
+    .values({ toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html })
+    .$returningId();
+  ensureOutboxFlusher();
+  if (!(process.env.VITEST && process.env.MAIL_FLUSH_INTERVAL_MS === undefined)) {
+    const url = smtpUrl();
+    if (url) {
+      setImmediate(() => {
+        (async () => {
+          if (!(await claim(id, 0))) return; // the flusher got there first
+          const error = await deliver({ id, toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html }, url);
+          if (error) logOnce(`send:${error}`, `outbox row ${id} not sent yet (${error}); it will be retried`);
+        })().catch((err) => logOnce(`kick:${describeError(err)}`, `outbox delivery failed: ${describeError(err)}`));
+      });
+    } else holdNotice();
+  }
+  return { id };
 }
 
 /** SQL: seconds after creation at which a row with its current `attempts` is due again. */

@@ -5,7 +5,8 @@ import { data } from "react-router";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
-import { prepareSearchIndex, searchDuty, type CurveSet as EngineCurveSet } from "~/engine";
+import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type Verdict } from "~/engine";
+import { workspaceCurrency } from "./accounts.server";
 import {
   AdjustmentSchema,
   DEFAULT_ADJUSTMENT,
@@ -13,6 +14,7 @@ import {
   evaluateCandidate,
   evaluateSystem,
   flowMaxOf,
+  candidatesFlowMax,
   SystemInputSchema,
   toPumpPoints,
   type Adjustment,
@@ -257,8 +259,7 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   const stored = await getSystem(viewer, systemId);
   const system = inputOverride ? { ...stored, input: inputOverride } : stored;
   const cands = await listCandidates(viewer, systemId);
-  const pumpMax = Math.max(0, ...cands.map((c) => c.set.points[c.set.points.length - 1]?.flow ?? 0));
-  const flowMax = flowMaxOf(system.input, pumpMax * (cands.some((c) => c.adjustment.arrangement === "parallel") ? Math.max(...cands.map((c) => c.adjustment.dutyPumps)) : 1));
+  const flowMax = flowMaxOf(system.input, candidatesFlowMax(cands));
   let evaluation: ReturnType<typeof evaluateSystem> | null = null;
   let systemError: string | null = null;
   try {
@@ -266,9 +267,10 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   } catch (e) {
     systemError = e instanceof Error ? e.message : String(e);
   }
+  const currency = await workspaceCurrency(viewer.workspace.id);
   const evaluated = cands.map((c) => {
     try {
-      return { ...c, result: evaluateCandidate(system.input, c.set, c.adjustment), error: null as string | null };
+      return { ...c, result: evaluateCandidate(system.input, c.set, c.adjustment, { catalogue: catalogueOf(c.set), currency }), error: null as string | null };
     } catch (e) {
       return { ...c, result: null, error: e instanceof Error ? e.message : String(e) };
     }
@@ -276,17 +278,54 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   return { system, evaluation, systemError, candidates: evaluated, flowMax };
 }
 
-// ── Duty-point search ───────────────────────────────────────────────────────────────────────
-export type SearchFilters = { type?: string; speed?: number; size?: string; maxPowerW?: number; methods?: ("direct" | "trim" | "speed")[] };
+/** What the model publishes (for the verdict's catalogue rule). */
+export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMax" | "ratedSpeed">) => ({
+  impellerMin: s.impellerMin ?? null,
+  impellerMax: s.impellerMax ?? null,
+  ratedSpeed: s.ratedSpeed ?? null,
+});
 
-/** Every curve set open to the viewer, ranked against the system's duty (locked libraries listed, never searched). */
+// ── Duty-point search ───────────────────────────────────────────────────────────────────────
+export type SearchFilters = {
+  type?: string;
+  speed?: number;
+  size?: string;
+  maxPowerW?: number;
+  methods?: ("direct" | "trim" | "speed")[];
+  /** Offer pumps whose verdict is outside-catalogue too (trim or speed beyond what the model publishes). */
+  allowBeyondCatalogue?: boolean;
+};
+
+/** Same model, speed, impeller and points: one distinct curve, however many libraries reach it. */
+function curveKey(s: LibraryCurveSet): string {
+  const pts = s.points.map((p) => [p.flow, p.head, p.efficiency, p.power, p.npshr].map((x) => (x == null ? "" : x.toPrecision(9))).join(":")).join("|");
+  return `${s.model.trim().toLowerCase()}#${s.speed ?? ""}#${s.impellerDiameter ?? ""}#${pts}`;
+}
+
+/** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
+const SEARCH_EVALUATED = 80;
+const SEARCH_SHOWN = 50;
+
+/**
+ * Every curve set open to the viewer, ranked against the system's duty (locked libraries listed,
+ * never searched). One row per distinct curve (the libraries that carry it named); each row has
+ * the verdict of the pump as offered on the system's band; outside-catalogue rows only on request.
+ */
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
   const system = await getSystem(viewer, systemId);
   const { open, locked } = await searchableRevisions(viewer);
-  if (!system.input.duty) return { system, results: [], locked, stats: null, message: "Set a duty point (flow and head) first." };
-  const evaluation = evaluateSystem(system.input);
+  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
+  let evaluation: ReturnType<typeof evaluateSystem>;
+  try {
+    evaluation = evaluateSystem(system.input);
+  } catch (e) {
+    // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
+    // user's to fix, not a server fault: the page says why.
+    return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
+  }
   const dutyHead = system.input.duty.head;
-  const sets = open.length ? await curvesOfRevisions(open.map((o) => o.revisionId)) : [];
+  const sets: (LibraryCurveSet & { libraryId: number; library: string })[] = [];
+  for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) sets.push({ ...s, libraryId: o.libraryId, library: o.name });
   const filtered = sets.filter(
     (s) =>
       (!filters.type || s.type.toLowerCase().includes(filters.type.toLowerCase())) &&
@@ -309,16 +348,80 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     npshAvailable: npshaAtDuty?.y,
     requiredNpshMargin: system.input.npshMargin,
     density: evaluation.fluid.density,
-    limit: 50,
+    minSpeedRatio: 0.3,
+    limit: SEARCH_EVALUATED * 2,
   });
   const byId = new Map(filtered.map((s) => [String(s.id), s]));
-  const results = res.candidates
-    .filter((c) => !filters.maxPowerW || c.shaftPower == null || c.shaftPower <= filters.maxPowerW)
-    .map((c) => {
-      const s = byId.get(c.id)!;
-      return { ...c, curveSetId: s.id, model: s.model, type: s.type, size: s.nominalSize, setSpeed: s.speed, setDiameter: s.impellerDiameter };
-    });
-  return { system, results, locked, stats: res.stats, message: null as string | null };
+  // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
+  const groups = new Map<string, { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[] }>();
+  let duplicates = 0;
+  for (const c of res.candidates) {
+    if (filters.maxPowerW && c.shaftPower != null && c.shaftPower > filters.maxPowerW) continue;
+    const s = byId.get(c.id)!;
+    const key = curveKey(s);
+    const g = groups.get(key);
+    if (!g) {
+      groups.set(key, { row: c, set: s, libraries: [s.library] });
+      continue;
+    }
+    duplicates++;
+    if (!g.libraries.includes(s.library)) g.libraries.push(s.library);
+    const mine = (x: typeof s) => libraryOwnedBy(x.libraryId, viewer);
+    if (Math.abs(c.score - g.row.score) < 1e-12 && (await mine(s)) && !(await mine(g.set))) { g.row = c; g.set = s; }
+  }
+  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
+  let outsideCatalogue = 0;
+  const kept: { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[]; verdict: Verdict | null }[] = [];
+  for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
+    let verdict: Verdict | null;
+    try {
+      const adj = { ...DEFAULT_ADJUSTMENT, method: g.row.method === "direct" ? "none" : g.row.method } as Adjustment;
+      verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
+    } catch {
+      verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
+    }
+    if (verdict?.status === "outside-catalogue") {
+      outsideCatalogue++;
+      if (!filters.allowBeyondCatalogue) continue;
+    }
+    kept.push({ ...g, verdict });
+  }
+  // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
+  kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
+  const shown = kept.slice(0, SEARCH_SHOWN);
+  const notes = shown.map((k, i) => {
+    if (i === 0 || verdictClass(k.verdict) === verdictClass(shown[i - 1].verdict)) return null;
+    const above = shown[i - 1].verdict;
+    return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
+  });
+  explainRanks(shown.map((k) => k.row), kept.length, system.input.npshMargin, notes);
+  const results = shown.map(({ row: c, set: s, libraries, verdict }) => ({
+    ...c,
+    curveSetId: s.id,
+    model: s.model,
+    type: s.type,
+    size: s.nominalSize,
+    setSpeed: s.speed,
+    setDiameter: s.impellerDiameter,
+    library: s.library,
+    alsoIn: libraries.filter((l) => l !== s.library),
+    verdict,
+  }));
+  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
+}
+
+const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
+const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
+
+const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
+async function libraryOwnedBy(libraryId: number, viewer: Viewer): Promise<boolean> {
+  let m = ownLibraryCache.get(viewer);
+  if (!m) ownLibraryCache.set(viewer, (m = new Map()));
+  if (!m.has(libraryId)) {
+    const [row] = await db().select({ ws: libraries.workspaceId }).from(libraries).where(eq(libraries.id, libraryId));
+    m.set(libraryId, row?.ws === viewer.workspace.id);
+  }
+  return m.get(libraryId)!;
 }
 
 // ── Selections ──────────────────────────────────────────────────────────────────────────────

@@ -5,7 +5,7 @@
 // count (1, 2, 3, …) with no read-after-write race. A new row (first hit of a window) reports
 // insertId 0 — the table has no AUTO_INCREMENT column — which means hits = 1.
 import { and, like, lt, sql } from "drizzle-orm";
-import { db } from "@db/client.server";
+import { db, retryOnConflict } from "@db/client.server";
 import { rateLimits } from "@db/schema";
 
 export type RateLimitRule = {
@@ -49,12 +49,14 @@ export function windowStartOf(now: Date, windowSeconds: number): Date {
 export async function hitRateLimit(bucket: string, rule: RateLimitRule, now: Date = new Date()): Promise<RateLimitResult> {
   const key = bucket.slice(0, 120);
   const windowStart = windowStartOf(now, rule.windowSeconds);
-  const [res] = (await db()
-    .insert(rateLimits)
-    .values({ bucket: key, windowStart, hits: 1 })
-    .onDuplicateKeyUpdate({ set: { hits: sql`LAST_INSERT_ID(${rateLimits.hits} + 1)` } })) as unknown as [
-    { affectedRows: number; insertId: number },
-  ];
+  // On a Galera cluster two nodes may raise the same row at once: one commit fails certification
+  // (errno 1213) and the whole upsert runs again on the new count.
+  const [res] = (await retryOnConflict(() =>
+    db()
+      .insert(rateLimits)
+      .values({ bucket: key, windowStart, hits: 1 })
+      .onDuplicateKeyUpdate({ set: { hits: sql`LAST_INSERT_ID(${rateLimits.hits} + 1)` } }),
+  )) as unknown as [{ affectedRows: number; insertId: number }];
   const inserted = !res?.insertId;
   const hits = inserted ? 1 : Number(res.insertId);
   if (inserted && Math.random() < PRUNE_PROBABILITY) {

@@ -1,7 +1,7 @@
 // The system editor's form codec: SystemInput (SI) ⇄ form fields in the user's units.
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
-import { fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 export type UnitSystem = "SI" | "US";
@@ -137,6 +137,11 @@ export function readSystemForm(f: FormLike, sys: UnitSystem): { input: SystemInp
     hoursPerYear: readNumber(f, "hoursPerYear", errors, { label: "operating hours", optional: true }) ?? 0,
     tariffPerKWh: readNumber(f, "tariffPerKWh", errors, { label: "the tariff", optional: true }) ?? 0,
     npshMargin: readNumber(f, "npshMargin", errors, { label: "the NPSH margin ratio", optional: true }) ?? 1.1,
+    // Duty flow tolerance in % (blank: −0 % / +10 %).
+    flowTolerance: {
+      minus: (readNumber(f, "tolMinus", errors, { label: "the flow tolerance below the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.minus * 100) / 100,
+      plus: (readNumber(f, "tolPlus", errors, { label: "the flow tolerance above the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.plus * 100) / 100,
+    },
   };
   const r = v.safeParse(SystemInputSchema, raw);
   if (!r.success) {
@@ -158,6 +163,7 @@ function fieldFor(path: unknown[]): string {
   if (a === "duty") return b === "head" ? "dutyHead" : "dutyFlow";
   if (a === "fluid") return b === "dynamicViscosity" ? "viscosity" : String(b);
   if (a === "temperatureC") return "temperature";
+  if (a === "flowTolerance") return b === "minus" ? "tolMinus" : "tolPlus";
   return String(a ?? "_form");
 }
 
@@ -183,6 +189,8 @@ export function systemFormValues(input: SystemInput, sys: UnitSystem) {
     hoursPerYear: String(input.hoursPerYear),
     tariffPerKWh: String(input.tariffPerKWh),
     npshMargin: String(input.npshMargin),
+    tolMinus: String(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus * 100).toFixed(4)),
+    tolPlus: String(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).plus * 100).toFixed(4)),
     runs: input.runs.map((r) => {
       let mat: ReturnType<typeof materialOf> | null = null;
       try {

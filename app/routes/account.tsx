@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import { Form, useActionData, useLoaderData, useSearchParams } from "react-router";
 import type { Route } from "./+types/account";
-import { listSessions, revokeSession } from "~/lib/auth.server";
+import { deviceId, listSessions, revokeDevice } from "~/lib/auth.server";
 import { createApiToken, listApiTokens, revokeApiToken, sendVerification, updateProfile } from "~/lib/accounts.server";
 import { requireMember } from "~/lib/guards.server";
 import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
@@ -16,7 +16,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     user: { email: m.user.email, name: m.user.name, emailVerified: m.user.emailVerified, unitSystem: m.user.unitSystem },
     workspace: m.workspace,
     devices: devices.map((d) => ({
-      id: d.id,
+      id: deviceId(d.id), // opaque: the session id is the cookie's value and never leaves the server
       current: d.id === m.session.id,
       createdAt: d.createdAt.toISOString(),
       userAgent: d.userAgent,
@@ -47,9 +47,10 @@ export async function action({ request }: Route.ActionArgs) {
       await sendVerification(m.user.id);
       return { notice: "A new confirmation link is on its way." };
     case "revoke-device":
-      if (!(await revokeSession(m.user.id, f.sessionId))) return invalid({ _form: "No such device." }, 404);
+      if (!(await revokeDevice(m.user.id, f.sessionId))) return invalid({ _form: "No such device." }, 404);
       return { notice: "That device is signed out." };
     case "create-token": {
+      if (!m.user.emailVerified) return invalid({ _form: "Confirm your e-mail address before creating API tokens (the link is in your inbox; you can ask for a new one below)." }, 403);
       const { token } = await createApiToken({ userId: m.user.id, workspaceId: m.workspace.id, name: f.name, scope: f.scope });
       return { notice: "Token created. Copy it now: it is shown only this once.", token };
     }

@@ -1,5 +1,6 @@
 import type { Route } from "./+types/api-docs";
 import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api.server";
+import { SystemsApiDocs } from "~/components/api-docs-systems";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
 export function loader() {
@@ -364,6 +365,8 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
         <Code>{`curl -sS https://<your Dutymark address>/api/v1/libraries \\
   -H 'Authorization: Bearer <token>'`}</Code>
       </section>
+
+      <SystemsApiDocs Code={Code} />
     </div>
   );
 }

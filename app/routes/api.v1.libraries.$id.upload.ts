@@ -4,7 +4,8 @@ import { requireApi } from "~/lib/guards.server";
 import { analyseStored, getUpload, importUpload, storeUpload, UploadRejected } from "~/lib/libraries.server";
 import { badRequest, problem } from "~/lib/problem.server";
 import { asProblem } from "~/lib/api-errors.server";
-import { IdField } from "~/lib/forms.server";
+import { discardUpload } from "~/lib/uploads.server";
+import { IdField, readFormSafe } from "~/lib/forms.server";
 import { curveNameOfKey } from "~/lib/import";
 
 // POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1";
@@ -20,7 +21,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   const viewer = { userId: c.userId, workspace: c.workspace, role: c.role };
   try {
-    const form = await request.formData();
+    const form = await readFormSafe(request);
     const file = form.get("file");
     if (!(file instanceof File)) return badRequest("The 'file' field is missing.", { errors: [{ field: "file", message: "required" }] });
     let mapping: unknown = undefined;
@@ -54,8 +55,15 @@ export async function action({ request, params }: Route.ActionArgs) {
       problems: analysis.result.problems.map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : null })),
     };
     if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
-    const revision = await importUpload(viewer, id.output, uploadId, analysis.mapping, String(form.get("note") ?? "API import"));
-    return Response.json({ report, revision }, { status: 201 });
+    try {
+      const revision = await importUpload(viewer, id.output, uploadId, analysis.mapping, String(form.get("note") ?? "API import"));
+      return Response.json({ report, revision }, { status: 201 });
+    } catch (e) {
+      // A rejected import keeps nothing: the stored file goes with it.
+      await discardUpload(id.output, uploadId);
+      if (e instanceof v.ValiError) return problem({ title: "Unprocessable Content", status: 422, detail: `Nothing imported: ${e.message}.`, report });
+      throw e;
+    }
   } catch (e) {
     if (e instanceof UploadRejected) return problem({ title: "Unprocessable Content", status: 422, detail: e.message });
     return asProblem(e);

@@ -4,6 +4,7 @@
 import { Form, useNavigation } from "react-router";
 import type { Route } from "./+types/dev.mailbox";
 import { Fragment, type ReactNode } from "react";
+import { readFormSafe } from "~/lib/forms.server";
 import {
   clearMailbox,
   flushOutbox,
@@ -58,7 +59,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   if (!mailboxEnabled()) notFound();
-  const intent = String((await request.formData()).get("intent") ?? "");
+  const intent = String((await readFormSafe(request)).get("intent") ?? "");
   try {
     if (intent === "clear") return { notice: `Removed ${await clearMailbox()} message(s) from the mailbox.` };
     if (intent === "flush") {

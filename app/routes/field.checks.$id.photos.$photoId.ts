@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/field.checks.$id.photos.$photoId";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { getPhoto } from "~/lib/fieldchecks.server";
 
 // GET /field/checks/:id/photos/:photoId — one photo, with the content type found from its bytes at upload.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
-  const p = await getPhoto(viewerOf(m), v.parse(IdField, params.id), v.parse(IdField, params.photoId));
+  const p = await getPhoto(viewerOf(m), readId(params.id), readId(params.photoId));
   const ascii = p.filename.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
   return new Response(new Uint8Array(p.content), {
     headers: {

@@ -1,14 +1,14 @@
-import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { can } from "~/lib/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks.server";
 import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { crossOf, crossSentences } from "~/lib/fieldcheck-cross";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -17,7 +17,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `Field check ${d
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
-  const c = await getFieldCheck(viewerOf(m), v.parse(IdField, params.id));
+  const c = await getFieldCheck(viewerOf(m), readId(params.id));
   const url = new URL(request.url);
   return {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
@@ -37,8 +37,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
 
-function gaugeText(sys: UnitSystem, g: Readings["suction"]) {
-  return `${fmtPressure(sys, g.pressure)} ${g.reference}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
+function gaugeText(sys: UnitSystem, g: Readings["suction"], asGauge: number) {
+  // Each reading says its reference; an absolute one also shows the gauge value the check used.
+  const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
+  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against 101.325 kPa)` : "";
+  return `${read}${used}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
 }
 
 export default function FieldCheckRecord() {
@@ -48,6 +51,7 @@ export default function FieldCheckRecord() {
   const rd = d.readings;
   const e = r.engine;
   const band = e.flowBand;
+  const cross = crossOf(r);
   const rpm = speedRpm(rd.speed);
   const pin = inputPowerW(rd.power);
   return (
@@ -89,6 +93,15 @@ export default function FieldCheckRecord() {
           <VerdictBadge verdict={d.check.verdict} grade={d.check.grade} large />
         </p>
         <p className="text-sm">{r.message}.</p>
+        {cross ? (
+          <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-cross">
+            {crossSentences(cross, { flow: (v) => fmtFlow(sys, v), head: (v) => fmtHead(sys, v) }).map((t, i) => (
+              <p key={i} className={i === 0 ? "text-slate-600" : ""}>
+                {t}
+              </p>
+            ))}
+          </div>
+        ) : null}
         <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
           <dt className="text-slate-600">Delivered flow</dt>
           <dd className="font-semibold" data-testid="delivered-flow">
@@ -184,9 +197,9 @@ export default function FieldCheckRecord() {
         <h2 className="font-semibold">Readings</h2>
         <dl className="mt-2 grid grid-cols-1 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
           <dt className="text-slate-600">Suction gauge</dt>
-          <dd>{gaugeText(sys, rd.suction)}</dd>
+          <dd>{gaugeText(sys, rd.suction, r.gauges.suction)}</dd>
           <dt className="text-slate-600">Discharge gauge</dt>
-          <dd>{gaugeText(sys, rd.discharge)}</dd>
+          <dd>{gaugeText(sys, rd.discharge, r.gauges.discharge)}</dd>
           <dt className="text-slate-600">Velocity heads</dt>
           <dd>
             suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}

@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/field.selections.$id.export-csv";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { checkHistory, historyCsv } from "~/lib/fieldchecks.server";
 
 // GET /field/selections/:id/export.csv — every check of the selection (all versions), SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
-  const h = await checkHistory(viewerOf(m), v.parse(IdField, params.id));
+  const h = await checkHistory(viewerOf(m), readId(params.id));
   return new Response(historyCsv(h), {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-field-checks-${h.selection.id}.csv"` },
   });

@@ -1,9 +1,8 @@
-import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import type { Route } from "./+types/field.selections.$id";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId, readFormSafe } from "~/lib/forms.server";
 import { can } from "~/lib/permissions";
 import {
   checkHistory,
@@ -39,7 +38,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `Field check · 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const viewer = viewerOf(m);
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const h = await checkHistory(viewer, id);
   const sel = h.selection;
   const f = sel.frozen;
@@ -85,10 +84,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "fieldcheck.write");
   const viewer = viewerOf(m);
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   let form: FormData;
   try {
-    form = await request.formData();
+    form = await readFormSafe(request);
   } catch {
     return data({ errors: { _form: "The form could not be read (is it larger than 12 MB in all?)." } as Record<string, string>, fields: {} as CheckFields }, { status: 400 });
   }

@@ -2,6 +2,7 @@ import * as v from "valibot";
 import { Form, useActionData } from "react-router";
 import type { Route } from "./+types/forgot";
 import { requestPasswordReset } from "~/lib/accounts.server";
+import { clientIp } from "~/lib/auth.server";
 import { EMAIL_TOKEN_TTL } from "~/lib/constants";
 import { Email, invalid, readForm } from "~/lib/forms.server";
 import { Card, Field, Notice } from "~/components/forms";
@@ -11,7 +12,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Reset your password · 
 export async function action({ request }: Route.ActionArgs) {
   const r = await readForm(request, v.object({ email: Email }));
   if (!r.ok) return invalid(r.errors);
-  await requestPasswordReset(r.value.email);
+  await requestPasswordReset(r.value.email, clientIp(request));
   return { sent: true as const };
 }
 

@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/libraries.$id.export-csv";
 import { requireMember } from "~/lib/guards.server";
 import { curvesToCsv, libraryCurves } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 
 // GET /libraries/:id/export.csv — the current revision in our own CSV format (fixtures/demo/FORMAT.md).
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const curves = await libraryCurves(viewerOf(m), id);
   return new Response(curvesToCsv(curves), {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-library-${id}.csv"` },

@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/libraries.$id.export-json";
 import { requireMember } from "~/lib/guards.server";
 import { getLibrary, libraryCurves } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 
 // GET /libraries/:id/export.json — the current revision, SI units (flow m³/s, head m, efficiency 0..1, power W, NPSHr m).
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const viewer = viewerOf(m);
   const lib = await getLibrary(viewer, id);
   const curves = await libraryCurves(viewer, id);

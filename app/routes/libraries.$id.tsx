@@ -7,7 +7,7 @@ import { viewerOf } from "~/lib/viewer.server";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
 import { can } from "~/lib/permissions";
-import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { invalid, Name, readForm, readId, readFormSafe } from "~/lib/forms.server";
 import { VISIBILITIES } from "~/lib/constants";
 import { Field, FormError, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
@@ -19,7 +19,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.nam
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
   const viewer = viewerOf(m);
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const lib = await getLibrary(viewer, id);
   const locked = lib.access === "locked";
   const owner = lib.access === "owner";
@@ -82,8 +82,8 @@ const Settings = v.object({
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "library.write");
-  const id = v.parse(IdField, params.id);
-  const form = await request.clone().formData();
+  const id = readId(params.id);
+  const form = await readFormSafe(request.clone());
   if (form.get("intent") === "delete") {
     const how = await deleteLibrary(viewerOf(m), id);
     throw redirect(`/libraries?${how}=1`);

@@ -1,23 +1,22 @@
-import * as v from "valibot";
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.upload";
 import { requireMember } from "~/lib/guards.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries.server";
-import { IdField } from "~/lib/forms.server";
+import { readId, readFormSafe } from "~/lib/forms.server";
 
 // POST /libraries/:id/upload (multipart, field "file"). A browser form gets a redirect to the
 // mapping step; the drop zone (Accept: application/json) gets { location } or { error }.
 export async function loader({ params }: Route.LoaderArgs) {
-  throw redirect(`/libraries/${params.id}`);
+  throw redirect(`/libraries/${readId(params.id)}`);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "library.write");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const wantsJson = (request.headers.get("accept") ?? "").includes("application/json");
   let form: FormData;
   try {
-    form = await request.formData();
+    form = await readFormSafe(request);
   } catch {
     return fail("The upload could not be read.", 400);
   }

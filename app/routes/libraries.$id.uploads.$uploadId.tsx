@@ -1,74 +1,37 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/guards.server";
-import { analyseStored, getUpload, importUpload, UploadRejected } from "~/lib/libraries.server";
+import { importUpload, UploadRejected } from "~/lib/libraries.server";
+import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
+import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
+import type { UploadSummary } from "~/lib/upload-analysis";
 import {
-  blockLabel, curveName, curveNameOfKey, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
+  blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
   type CellEdit, type Encoding, type Mapping, type NumericField,
 } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/upload-fix.server";
-import { FixGrid, type FlaggedRow } from "~/components/FixGrid";
-import { IdField } from "~/lib/forms.server";
+import { FixGrid } from "~/components/FixGrid";
+import { readId, readFormSafe } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
-const PROBLEM_ROWS_SHOWN = 300;
-const PREVIEW_CURVES = 12;
-const FLAGGED_ROWS_SHOWN = 50;
-
-/** Rows with an error, with their cells, for the fix grid (first FLAGGED_ROWS_SHOWN). */
-function flaggedRows(analysis: ReturnType<typeof analyseStored>): { rows: FlaggedRow[]; total: number } {
-  const { headers, dataStartLine } = analysis.sniff;
-  const byLine = new Map<number, FlaggedRow["problems"]>();
-  for (const p of analysis.result.problems) {
-    if (p.severity !== "error" || p.row < dataStartLine) continue;
-    const index = p.column === null ? null : headers.indexOf(p.column);
-    byLine.set(p.row, [...(byLine.get(p.row) ?? []), { index: index === -1 ? null : index, reason: p.reason }]);
-  }
-  if (byLine.size === 0) return { rows: [], total: 0 };
-  const lines = [...byLine.keys()].sort((a, b) => a - b).slice(0, FLAGGED_ROWS_SHOWN);
-  const want = new Set(lines);
-  const cellsOf = new Map(analysis.rows.filter((r) => want.has(r.line)).map((r) => [r.line, r.cells]));
-  return {
-    rows: lines.filter((l) => cellsOf.has(l)).map((line) => ({ line, cells: headers.map((_, i) => cellsOf.get(line)![i] ?? ""), problems: byLine.get(line)! })),
-    total: byLine.size,
-  };
-}
-
-function summarise(analysis: ReturnType<typeof analyseStored>) {
-  const { result, sniff, mapping } = analysis;
-  const problems = result.problems;
-  return {
-    sniff: { delimiter: sniff.delimiter === "\t" ? "tab" : sniff.delimiter, decimalComma: sniff.decimalComma, headerLine: sniff.headerLine, hadBom: sniff.hadBom || analysis.decoded.bom },
-    encoding: { name: analysis.decoded.encoding, how: analysis.decoded.how },
-    title: analysis.title,
-    flagged: flaggedRows(analysis),
-    headers: sniff.headers,
-    samples: sniff.headers.map((_, i) => analysis.rows.slice(0, 3).map((r) => r.cells[i] ?? "")),
-    mapping,
-    mappingSource: analysis.mappingSource,
-    stats: result.stats,
-    problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
-    problemCount: problems.length,
-    curveSets: result.curveSets.map((c) => ({ key: c.key, name: curveName(c.model, c.speed, c.impellerDiameter), model: c.model, speed: c.speed, impellerDiameter: c.impellerDiameter, points: c.points.length, ok: c.ok })),
-    preview: result.curveSets.slice(0, PREVIEW_CURVES).map((c) => ({
-      id: c.key,
-      label: `${curveName(c.model, c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,
-      points: c.points.map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
-    })),
-  };
-}
+/** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
+const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
+  summariseUpload(c.upload, () => uploadBytes(c.upload.id), c.lib.mappingJson, mapping).catch((e) => {
+    if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
+    throw e;
+  });
 
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
   const viewer = { userId: m.user.id, workspace: m.workspace, role: m.role };
-  const libraryId = v.parse(IdField, params.id);
-  const uploadId = v.parse(IdField, params.uploadId);
-  const up = await getUpload(viewer, libraryId, uploadId);
+  const libraryId = readId(params.id);
+  const uploadId = readId(params.uploadId);
+  const up = await getUploadMeta(viewer, libraryId, uploadId);
   return { m, viewer, libraryId, uploadId, ...up };
 }
 
@@ -79,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256 },
     unitSystem: c.m.user.unitSystem,
     correctedFrom: Number(new URL(request.url).searchParams.get("from")) || null,
-    ...summarise(analyseStored(c.upload.content, c.lib)),
+    ...(await analysis(c)),
   };
 }
 
@@ -138,7 +101,7 @@ function editsFromForm(form: FormData): CellEdit[] {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const c = await context(request, params);
-  const form = await request.formData();
+  const form = await readFormSafe(request);
   if (form.get("intent") === "fix") {
     const enc = String(form.get("encoding") ?? "");
     try {
@@ -157,11 +120,11 @@ export async function action({ request, params }: Route.ActionArgs) {
       const r = await importUpload(c.viewer, c.libraryId, c.uploadId, mapping, String(form.get("note") ?? ""));
       throw redirect(`/libraries/${c.libraryId}?imported=${r.number}`);
     } catch (e) {
-      if (e instanceof UploadRejected) return { error: e.message, ...summarise(analyseStored(c.upload.content, c.lib, mapping)) };
+      if (e instanceof UploadRejected) return { error: e.message, ...(await analysis(c, mapping)) };
       throw e;
     }
   }
-  return summarise(analyseStored(c.upload.content, c.lib, mapping));
+  return analysis(c, mapping);
 }
 
 const FIELD_LABEL: Record<string, string> = {
@@ -183,7 +146,7 @@ const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
 
 export default function UploadPreview() {
   const l = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as (Partial<ReturnType<typeof summarise>> & { error?: string }) | undefined;
+  const a = useActionData<typeof action>() as (Partial<UploadSummary> & { error?: string }) | undefined;
   const d = { ...l, ...(a && "mapping" in a && a.mapping ? a : {}) } as typeof l;
   const bad = d.stats.curveSets - d.stats.curveSetsOk;
   return (

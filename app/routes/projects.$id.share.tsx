@@ -3,7 +3,7 @@ import { Form, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects.$id.share";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField, invalid, readForm } from "~/lib/forms.server";
+import { IdField, invalid, readForm, readId } from "~/lib/forms.server";
 import { listShares, shareProject, unshareProject } from "~/lib/fieldchecks.server";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
@@ -13,7 +13,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `Share ${data?.p
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.write");
-  return listShares(viewerOf(m), v.parse(IdField, params.id));
+  return listShares(viewerOf(m), readId(params.id));
 }
 
 const ShareForm = v.variant("intent", [
@@ -24,7 +24,7 @@ const ShareForm = v.variant("intent", [
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
   const viewer = viewerOf(m);
-  const projectId = v.parse(IdField, params.id);
+  const projectId = readId(params.id);
   const r = await readForm(request, ShareForm);
   if (!r.ok) return invalid(r.errors);
   if (r.value.intent === "share") {

@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/guards.server";
 import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { can } from "~/lib/permissions";
-import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { invalid, Name, readForm, readId } from "~/lib/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { fmtFlow, fmtHead } from "~/components/units";
 
@@ -13,7 +13,7 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const viewer = viewerOf(m);
   const p = await getProject(viewer, id);
   return {
@@ -40,7 +40,7 @@ const Intent = v.variant("intent", [
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const viewer = viewerOf(m);
   const r = await readForm(request, Intent);
   if (!r.ok) return invalid(r.errors);

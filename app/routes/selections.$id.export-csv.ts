@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/selections.$id.export-csv";
 import { requireMember } from "~/lib/guards.server";
 import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 import { selectionCsv } from "~/lib/selection-export.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const s = await getSelection(viewerOf(m), v.parse(IdField, params.id));
+  const s = await getSelection(viewerOf(m), readId(params.id));
   return new Response(selectionCsv(s.id, s.title, s.frozen), {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.csv"` },
   });

@@ -1,14 +1,13 @@
-import * as v from "valibot";
 import type { Route } from "./+types/selections.$id.export-json";
 import { requireMember } from "~/lib/guards.server";
 import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId } from "~/lib/forms.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const s = await getSelection(viewerOf(m), v.parse(IdField, params.id));
-  const body = { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), units: "SI (m3/s, m, Pa, W, kg/m3)", ...s.frozen };
+  const s = await getSelection(viewerOf(m), readId(params.id));
+  const body = { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), units: "SI (m3/s, m, Pa, W, kg/m3)", verdict: s.frozen.result.verdict ?? null, ...s.frozen };
   return new Response(JSON.stringify(body, null, 2), {
     headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.json"` },
   });

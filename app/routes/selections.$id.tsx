@@ -1,21 +1,21 @@
-import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/selections.$id";
 import { requireMember } from "~/lib/guards.server";
 import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
-import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
+import { readId } from "~/lib/forms.server";
+import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import type { WorkbenchView } from "~/lib/workbench-view";
+import { resultFlowMax } from "~/lib/hydraulics";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const s = await getSelection(viewerOf(m), id);
   return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name };
 }
@@ -30,11 +30,12 @@ export default function SelectionReport() {
   const view: WorkbenchView = {
     evaluation: f.systemCurve,
     systemError: null,
-    flowMax: f.flowMax,
+    // The selected pump's own range (frozen curve and operating point) with the duty: never another candidate's.
+    flowMax: resultFlowMax(input, f.result),
     candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null }],
   };
   return (
-    <article className="mx-auto max-w-5xl space-y-5 print:max-w-none">
+    <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">
       <header className="flex flex-wrap items-start justify-between gap-3 border-b border-slate-300 pb-3">
         <div>
           <p className="no-print text-sm">
@@ -58,6 +59,24 @@ export default function SelectionReport() {
       </header>
       <SizingCaution />
       {d.note ? <p className="text-sm">{d.note}</p> : null}
+
+      <section className="panel break-inside-avoid">
+        <h2 className="font-semibold">Verdict</h2>
+        {f.result.verdict === undefined ? (
+          <p className="text-sm text-slate-600" data-testid="report-verdict" data-status="not-judged">
+            Selected before Dutymark judged candidates: no verdict was frozen with this report.
+          </p>
+        ) : (
+          <div className="mt-1 text-sm">
+            <VerdictView verdict={f.result.verdict} testId="report-verdict" />
+          </div>
+        )}
+        {f.systemCurve?.dutyCheck ? (
+          <p className={`mt-2 text-xs ${f.systemCurve.dutyCheck.differs ? "text-duty-ink" : "text-slate-600"}`}>
+            {f.systemCurve.dutyCheck.message} {f.systemCurve.dutyCheck.governs}
+          </p>
+        ) : null}
+      </section>
 
       <section className="grid gap-4 md:grid-cols-2">
         <div className="panel">
@@ -109,13 +128,14 @@ export default function SelectionReport() {
             </dd>
             <dt className="text-slate-600">Operation</dt>
             <dd>
-              {input.hoursPerYear} h/year at {input.tariffPerKWh} per kWh; NPSH margin wanted {input.npshMargin}
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance −{fmtNum((input.flowTolerance?.minus ?? 0) * 100, 0)} %/+{fmtNum((input.flowTolerance?.plus ?? 0.1) * 100, 0)} %
             </dd>
           </dl>
         </div>
       </section>
 
-      <section className="panel break-inside-avoid">
+      {/* May break between the chart and its tables when printed (the chart itself stays whole). */}
+      <section className="panel">
         <h2 className="font-semibold">Curves</h2>
         <WorkbenchChart view={view} unitSystem={sys} duty={input.duty} title={`${f.pump.label} on ${f.system.name}`} />
       </section>
@@ -168,12 +188,14 @@ export default function SelectionReport() {
         <h2 className="font-semibold">Methods and assumptions</h2>
         <ul className="mt-2 list-disc space-y-1 pl-5">
           <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
-          <li>Fittings: K = n·fT after Crane Technical Paper No. 410 (fT for clean commercial steel at full turbulence); entrance 0.5 and exit 1.0 (common practice).</li>
+          <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
           <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
           <li>System band: least and most static lift × new and aged pipe roughness.</li>
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
           <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>
           <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
+          <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
+          <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
           <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {f.frozenAt.slice(0, 16).replace("T", " ")} UTC; later library changes do not alter this report.</li>
         </ul>
       </section>

@@ -1,7 +1,7 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useSearchParams } from "react-router";
+import { data, Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/signin";
-import { checkCredentials, clientIp, getAuth, startSession, THROTTLE } from "~/lib/auth.server";
+import { checkCredentials, clientIp, getAuth, startSession } from "~/lib/auth.server";
 import { AnyPassword, Email, invalid, readForm, safeNext } from "~/lib/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
 
@@ -20,15 +20,14 @@ export async function action({ request }: Route.ActionArgs) {
   if (!r.ok) return invalid(r.errors);
   const res = await checkCredentials(r.value.email, r.value.password, clientIp(request));
   if (!res.ok) {
-    return invalid(
-      {
-        _form:
-          res.reason === "throttled"
-            ? `Too many attempts. Wait ${THROTTLE.windowMinutes} minutes, or reset your password.`
-            : "That e-mail and password do not match an account.",
-      },
-      res.reason === "throttled" ? 429 : 400,
-    );
+    if (res.reason === "throttled") {
+      const wait = res.retryAfter < 90 ? `${res.retryAfter} seconds` : `${Math.ceil(res.retryAfter / 60)} minutes`;
+      return data(
+        { errors: { _form: `Too many attempts from here. Try again in ${wait}, or reset your password.` } },
+        { status: 429, headers: { "Retry-After": String(res.retryAfter) } },
+      );
+    }
+    return invalid({ _form: "That e-mail and password do not match an account." }, 400);
   }
   const cookie = await startSession(res.user.id, request);
   throw redirect(safeNext(r.value.next), { headers: { "Set-Cookie": cookie } });

@@ -1,23 +1,22 @@
-import * as v from "valibot";
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/guards.server";
 import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { IdField } from "~/lib/forms.server";
+import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
 import { can } from "~/lib/permissions";
 import { toSI } from "~/engine";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
-import { SizingCaution } from "~/components/workbench";
+import { SizingCaution, VerdictView } from "~/components/workbench";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const url = new URL(request.url);
   const sys = m.user.unitSystem as UnitSystem;
   const q = (k: string) => url.searchParams.get(k)?.trim() || "";
@@ -30,6 +29,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
     maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys === "US" ? "hp" : "kW", maxPower) : undefined,
     methods: methods.length ? methods : undefined,
+    allowBeyondCatalogue: url.searchParams.get("beyond") === "1",
   };
   const viewer = viewerOf(m);
   const res = await searchForSystem(viewer, id, filters);
@@ -42,6 +42,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     unitSystem: sys,
     message: res.message,
     stats: res.stats,
+    hidden: res.hidden,
+    dutyCheck: res.dutyCheck,
     locked: res.locked.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, visibility: l.visibility })),
     results: res.results.map((r) => ({
       curveSetId: r.curveSetId,
@@ -58,19 +60,22 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       npshMargin: r.npshMargin,
       shaftPower: r.shaftPower,
       reason: r.reason,
+      library: r.library,
+      alsoIn: r.alsoIn,
+      verdict: r.verdict,
       already: current.some((c) => c.curveSetId === r.curveSetId),
     })),
     candidateCount: current.length,
     canWrite: can(m.role, "project.write"),
-    filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods },
+    filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
-  const id = v.parse(IdField, params.id);
-  const form = await request.formData();
-  const curveSetId = v.parse(IdField, String(form.get("curveSetId")));
+  const id = readId(params.id);
+  const form = await readFormSafe(request);
+  const curveSetId = formId(form, "curveSetId");
   const method = form.get("method");
   const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
   const r = await addCandidate(viewerOf(m), id, curveSetId, adj);
@@ -118,11 +123,22 @@ export default function Search({ actionData }: Route.ComponentProps) {
             </label>
           ))}
         </fieldset>
+        <label className="flex items-center gap-1">
+          <input type="checkbox" name="beyond" value="1" defaultChecked={d.filters.beyond} /> allow beyond the catalogue
+          <span className="text-xs text-slate-500">(trims or speeds the model does not publish)</span>
+        </label>
         <button className="btn">Search</button>
       </Form>
+      {d.dutyCheck ? (
+        <p className={`text-xs ${d.dutyCheck.differs ? "caution" : "text-slate-600"}`} data-testid="duty-check">
+          {d.dutyCheck.message} {d.dutyCheck.governs} Each row's verdict is the pump as offered (its trim or speed) on the system's band.
+        </p>
+      ) : null}
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
           {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · showing the best {d.results.length}
+          {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
+          {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
       ) : null}
       <section className="panel overflow-x-auto">
@@ -134,7 +150,9 @@ export default function Search({ actionData }: Route.ComponentProps) {
               <tr>
                 <th className="py-1">#</th>
                 <th>Pump</th>
+                <th>Library</th>
                 <th>How</th>
+                <th>Verdict</th>
                 <th>Efficiency</th>
                 <th>vs BEP</th>
                 <th>NPSH margin</th>
@@ -151,7 +169,14 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     <span className="font-semibold">{r.model}</span> <span className="text-xs text-slate-500">{r.curve}</span>
                     <div className="text-xs text-slate-500">{[r.type, r.size].filter(Boolean).join(" · ")}</div>
                   </td>
+                  <td className="text-xs">
+                    {r.library}
+                    {r.alsoIn.length ? <div className="text-slate-500">also in {r.alsoIn.join(", ")}</div> : null}
+                  </td>
                   <td>{r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %`}</td>
+                  <td className="max-w-xs">
+                    <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} />
+                  </td>
                   <td>{fmtPct(r.efficiency)}</td>
                   <td>
                     {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}

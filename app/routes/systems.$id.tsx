@@ -6,20 +6,21 @@ import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/guards.server";
 import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, systemWorkbench } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
+import { workspaceCurrency } from "~/lib/accounts.server";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/permissions";
-import { IdField } from "~/lib/forms.server";
+import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { AdjustmentSchema } from "~/lib/hydraulics";
 import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, PIPE_TABLE_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
-import { fromSI, toSI } from "~/engine";
+import { fromSI, IE_CLASSES, toSI } from "~/engine";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const id = v.parse(IdField, params.id);
+  const id = readId(params.id);
   const bench = await systemWorkbench(viewerOf(m), id);
   return {
     id,
@@ -30,14 +31,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     unitSystem: m.user.unitSystem as UnitSystem,
     canWrite: can(m.role, "project.write"),
     canSelect: can(m.role, "selection.write"),
+    currency: await workspaceCurrency(m.workspace.id),
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.read");
   const viewer = viewerOf(m);
-  const id = v.parse(IdField, params.id);
-  const form = await request.formData();
+  const id = readId(params.id);
+  const form = await readFormSafe(request);
   const intent = String(form.get("intent") ?? "save");
   const needs = intent === "select" ? "selection.write" : "project.write";
   if (!can(m.role, needs)) throw new Response(`Your role (${m.role}) cannot do this.`, { status: 403 });
@@ -55,10 +57,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "archive":
       throw redirect(`/projects/${await archiveSystem(viewer, id)}`);
     case "remove-candidate":
-      await removeCandidate(viewer, v.parse(IdField, String(form.get("candidateId"))));
+      await removeCandidate(viewer, formId(form, "candidateId"));
       return { errors: {}, notice: "Candidate removed." };
     case "adjust": {
-      const candidateId = v.parse(IdField, String(form.get("candidateId")));
+      const candidateId = formId(form, "candidateId");
       const ratioRaw = String(form.get("ratio") ?? "").trim();
       const motorRaw = Number(String(form.get("motorRating") ?? "").replace(",", ".") || 0);
       const adj = v.safeParse(AdjustmentSchema, {
@@ -69,13 +71,14 @@ export async function action({ request, params }: Route.ActionArgs) {
         standbyPumps: Number(form.get("standbyPumps") || 0),
         motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? toSI("power", sys === "US" ? "hp" : "kW", motorRaw) : 0,
         serviceFactor: Number(String(form.get("serviceFactor") ?? "1").replace(",", ".") || 1),
+        ieClass: form.get("ieClass") ?? undefined,
       });
       if (!adj.success) return { errors: { [`adj.${candidateId}`]: adj.issues.map((i) => i.message).join("; ") }, notice: null };
       await adjustCandidate(viewer, candidateId, adj.output);
       return { errors: {}, notice: "Candidate adjusted." };
     }
     case "select": {
-      const candidateId = v.parse(IdField, String(form.get("candidateId")));
+      const candidateId = formId(form, "candidateId");
       const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000));
       throw redirect(`/selections/${sid}`);
     }
@@ -190,8 +193,16 @@ export default function SystemPage() {
                 <In label="Largest flow drawn" unit={u("flow")} name="flowMax" def={f.flowMax} errors={errors} hint="Blank: from the duty and pumps" />
                 <In label="NPSH margin ratio" name="npshMargin" def={f.npshMargin} errors={errors} hint="NPSHa/NPSHr wanted, 1.1–2.5 by application (ANSI/HI 9.6.1)" />
                 <In label="Operating hours per year" unit="h" name="hoursPerYear" def={f.hoursPerYear} errors={errors} />
-                <In label="Energy tariff" unit="per kWh" name="tariffPerKWh" def={f.tariffPerKWh} errors={errors} />
+                <In label="Energy tariff" unit={`${d.currency} per kWh`} name="tariffPerKWh" def={f.tariffPerKWh} errors={errors} hint="Workspace currency (set on the workspace page)" />
+                <In label="Flow tolerance below the duty" unit="%" name="tolMinus" def={f.tolMinus} errors={errors} hint="Verdict: the pump must deliver at least the duty flow less this" />
+                <In label="Flow tolerance above the duty" unit="%" name="tolPlus" def={f.tolPlus} errors={errors} hint="More than this above the duty: oversized" />
               </div>
+              {view.evaluation?.dutyCheck ? (
+                <div className={`rounded-md border p-2 text-xs ${view.evaluation.dutyCheck.differs ? "border-amber-400 bg-amber-50" : "border-slate-200"}`} data-testid="duty-check" data-differs={view.evaluation.dutyCheck.differs ? "yes" : "no"}>
+                  <p>{view.evaluation.dutyCheck.differs ? "▲ " : ""}{view.evaluation.dutyCheck.message}</p>
+                  <p className="mt-1 text-slate-600">{view.evaluation.dutyCheck.governs}</p>
+                </div>
+              ) : null}
             </section>
 
             <section className="panel space-y-3">
@@ -403,12 +414,22 @@ function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][n
       </div>
       <div className="flex gap-1">
         <label className="block">
-          motor {unitSystem === "US" ? "hp" : "kW"}
+          motor {unitSystem === "US" ? "hp" : "kW"} (blank: suggested)
           <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+fromSI("power", unitSystem === "US" ? "hp" : "kW", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
         </label>
         <label className="block">
           service factor
           <input name="serviceFactor" inputMode="decimal" defaultValue={a.serviceFactor} className="field w-14 py-0.5 text-xs" />
+        </label>
+        <label className="block">
+          class
+          <select name="ieClass" defaultValue={a.ieClass ?? "IE3"} className="field py-0.5 text-xs">
+            {IE_CLASSES.map((k) => (
+              <option key={k} value={k}>
+                {k}
+              </option>
+            ))}
+          </select>
         </label>
       </div>
       {error ? <p className="text-fail">{error}</p> : null}

@@ -1,17 +1,25 @@
 import * as v from "valibot";
-import { Form, useActionData, useSearchParams } from "react-router";
+import { data, Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/verify";
-import { verifyEmail } from "~/lib/accounts.server";
-import { readForm } from "~/lib/forms.server";
+import { verifyEmailUser } from "~/lib/accounts.server";
+import { startSession } from "~/lib/auth.server";
+import { readForm, safeNext } from "~/lib/forms.server";
 import { Card, FormError, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Confirm your address · Dutymark" }];
 
 // The link opens a page with a button: mail scanners that pre-fetch links do not use up the token.
+// Confirming signs the account in (the link proves the mailbox; sign-up itself starts no session, so
+// it can answer the same for a new and a known address) and goes on to `next` when there is one.
 export async function action({ request }: Route.ActionArgs) {
-  const r = await readForm(request, v.object({ token: v.pipe(v.string(), v.maxLength(200)) }));
+  const r = await readForm(request, v.object({ token: v.pipe(v.string(), v.maxLength(200)), next: v.optional(v.pipe(v.string(), v.maxLength(2000))) }));
   if (!r.ok) return { ok: false };
-  return { ok: await verifyEmail(r.value.token) };
+  const userId = await verifyEmailUser(r.value.token);
+  if (!userId) return { ok: false };
+  const cookie = await startSession(userId, request);
+  const next = safeNext(r.value.next, "");
+  if (next) throw redirect(next, { headers: { "Set-Cookie": cookie } });
+  return data({ ok: true }, { headers: { "Set-Cookie": cookie } });
 }
 
 export default function Verify() {
@@ -30,6 +38,7 @@ export default function Verify() {
         <Form method="post" className="space-y-3">
           {a && !a.ok ? <FormError error="This link has expired or was already used. Ask for a new one from your account page." /> : null}
           <input type="hidden" name="token" value={params.get("token") ?? ""} />
+          <input type="hidden" name="next" value={params.get("next") ?? ""} />
           <button className="btn" type="submit">
             Confirm my address
           </button>

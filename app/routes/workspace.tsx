@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import { Form, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/workspace";
-import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation } from "~/lib/accounts.server";
+import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/accounts.server";
 import { requireMember, setCurrentWorkspace } from "~/lib/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/permissions";
 import { Email, IdField, invalid, Name, readForm } from "~/lib/forms.server";
@@ -13,8 +13,9 @@ export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "workspace.read");
   const admin = can(m.role, "members.manage");
-  const [members, invites] = await Promise.all([listMembers(m.workspace.id), admin ? listInvitations(m.workspace.id) : Promise.resolve([])]);
+  const [members, invites, currency] = await Promise.all([listMembers(m.workspace.id), admin ? listInvitations(m.workspace.id) : Promise.resolve([]), workspaceCurrency(m.workspace.id)]);
   return {
+    currency,
     me: m.user.id,
     role: m.role,
     workspace: m.workspace,
@@ -28,6 +29,7 @@ const Role = v.picklist(ROLES, "Pick a role.");
 const Intent = v.variant("intent", [
   v.object({ intent: v.literal("switch"), workspaceId: IdField }),
   v.object({ intent: v.literal("rename"), name: Name("a workspace name") }),
+  v.object({ intent: v.literal("currency"), currency: v.pipe(v.string(), v.trim(), v.toUpperCase(), v.regex(/^[A-Z]{3}$/, "Give a three-letter ISO 4217 code, e.g. EUR, USD, GBP.")) }),
   v.object({ intent: v.literal("invite"), email: Email, role: Role }),
   v.object({ intent: v.literal("revoke-invite"), invitationId: IdField }),
   v.object({ intent: v.literal("role"), membershipId: IdField, role: Role }),
@@ -37,6 +39,7 @@ const Intent = v.variant("intent", [
 const NEEDS: Record<string, Permission> = {
   switch: "workspace.read",
   rename: "workspace.rename",
+  currency: "workspace.rename",
   invite: "members.manage",
   "revoke-invite": "members.manage",
   role: "members.manage",
@@ -57,7 +60,11 @@ export async function action({ request }: Route.ActionArgs) {
     case "rename":
       await renameWorkspace(ws.id, f.name);
       return { notice: "Workspace renamed." };
+    case "currency":
+      await setWorkspaceCurrency(ws.id, f.currency);
+      return { notice: `Energy costs are now shown in ${f.currency}.` };
     case "invite":
+      if (!base.user.emailVerified) return invalid({ _form: "Confirm your e-mail address before inviting people (the link is in your inbox; your account page sends a new one)." }, 403);
       await invite({ workspaceId: ws.id, workspaceName: ws.name, inviterId: base.user.id, inviterName: base.user.name, email: f.email, role: f.role });
       return { notice: `Invitation sent to ${f.email}.` };
     case "revoke-invite":
@@ -115,6 +122,11 @@ export default function Workspace() {
             <input type="hidden" name="intent" value="rename" />
             <Field label="Workspace name" name="name" defaultValue={d.workspace.name} error={errors.name} required />
             <button className="btn">Rename</button>
+          </Form>
+          <Form method="post" className="mt-3 flex flex-wrap items-end gap-3">
+            <input type="hidden" name="intent" value="currency" />
+            <Field label="Currency of tariffs and energy costs (ISO 4217)" name="currency" defaultValue={d.currency} error={errors.currency} required />
+            <button className="btn-quiet">Set currency</button>
           </Form>
         </section>
       ) : null}

@@ -24,6 +24,8 @@ import * as projectPage from "~/routes/projects.$id";
 import * as systemPage from "~/routes/systems.$id";
 import * as searchPage from "~/routes/systems.$id.search";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
+import * as apiSystem from "~/routes/api.v1.systems.$id";
+import * as apiSystemSearch from "~/routes/api.v1.systems.$id.search";
 import * as selectionPage from "~/routes/selections.$id";
 import * as selCsv from "~/routes/selections.$id.export-csv";
 import * as selJson from "~/routes/selections.$id.export-json";
@@ -85,6 +87,8 @@ const API: [string, (c: Ctx) => { fn: Fn; path: string; params: Record<string, s
   ["GET /api/v1/libraries/:id/curves", (c) => ({ fn: apiCurves.loader as Fn, path: `/api/v1/libraries/${c.lib}/curves`, params: { id: String(c.lib) } })],
   ["GET /api/v1/libraries/:id/models", (c) => ({ fn: apiModels.loader as Fn, path: `/api/v1/libraries/${c.lib}/models`, params: { id: String(c.lib) } })],
   ["GET /api/v1/models/:id", (c) => ({ fn: apiModel.loader as Fn, path: `/api/v1/models/${c.model}`, params: { id: String(c.model) } })],
+  ["GET /api/v1/systems/:id", (c) => ({ fn: apiSystem.loader as Fn, path: `/api/v1/systems/${c.system}`, params: { id: String(c.system) } })],
+  ["GET /api/v1/systems/:id/search", (c) => ({ fn: apiSystemSearch.loader as Fn, path: `/api/v1/systems/${c.system}/search`, params: { id: String(c.system) } })],
   ["POST /api/v1/systems/:id/preview", (c) => ({ fn: apiPreview.action as Fn, path: `/api/v1/systems/${c.system}/preview`, params: { id: String(c.system) }, method: "POST", body: JSON.stringify({ input: defaultSystemInput() }), headers: { "content-type": "application/json" } })],
   [
     "POST /api/v1/libraries/:id/upload",

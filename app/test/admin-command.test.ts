@@ -1,4 +1,4 @@
-// The operator command (db/admin.ts, run by `npm run admin -- …`) against the test database.
+// The operator command (app/cli/admin.ts, run by `npm run admin -- …`) against the test database.
 import { spawnSync } from "node:child_process";
 import { afterAll, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
@@ -8,7 +8,7 @@ import { checkCredentials } from "~/lib/auth.server";
 import { requireApi } from "~/lib/guards.server";
 
 afterAll(() => closeDb());
-const admin = (...args: string[]) => spawnSync(process.execPath, ["--import", "tsx", "db/admin.ts", ...args], { encoding: "utf8", env: process.env });
+const admin = (...args: string[]) => spawnSync(process.execPath, ["--import", "tsx", "app/cli/admin.ts", ...args], { encoding: "utf8", env: process.env });
 
 test("create-user makes the workspace when missing, marks the address verified; create-token prints the token alone on its last line", async () => {
   const email = `ops-${Date.now().toString(36)}@example.test`;

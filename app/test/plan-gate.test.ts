@@ -18,6 +18,8 @@ import * as curvesApi from "~/routes/api.v1.libraries.$id.curves";
 import * as searchPage from "~/routes/systems.$id.search";
 import * as systemPage from "~/routes/systems.$id";
 import * as previewApi from "~/routes/api.v1.systems.$id.preview";
+import * as systemApi from "~/routes/api.v1.systems.$id";
+import * as systemSearchApi from "~/routes/api.v1.systems.$id.search";
 import * as selectionPage from "~/routes/selections.$id";
 import * as selectionJson from "~/routes/selections.$id.export-json";
 
@@ -120,6 +122,14 @@ const PROBES = {
     });
     return { status: r.status, curves: r.status === 200 ? sharedCurvesIn(r.body as View).length : 0 };
   },
+  "GET /api/v1/systems/:id (stored system with a candidate added earlier)": async () => {
+    const r = await call(systemApi.loader as never, { path: `/api/v1/systems/${c.systemId}`, headers: { authorization: `Bearer ${c.token}` }, params: { id: String(c.systemId) } });
+    return { status: r.status, curves: r.status === 200 ? sharedCurvesIn(r.body as View).length : 0 };
+  },
+  "GET /api/v1/systems/:id/search (duty-point search by token)": async () => {
+    const r = await call(systemSearchApi.loader as never, { path: `/api/v1/systems/${c.systemId}/search`, headers: { authorization: `Bearer ${c.token}` }, params: { id: String(c.systemId) } });
+    return { status: r.status, curves: ((r.body as { results?: { curveSetId: number }[] }).results ?? []).filter((x) => c.sharedSets.has(x.curveSetId)).length };
+  },
 };
 
 async function addFresh() {
@@ -168,6 +178,11 @@ describe("Starter (free): shared libraries listed, never their curves", () => {
     expect(await PROBES["POST /api/v1/systems/:id/preview (live preview with a candidate added earlier)"]()).toMatchObject({ curves: 0 });
   });
 
+  test("system read API and search API by token: no curve or result of the now locked library", async () => {
+    expect(await PROBES["GET /api/v1/systems/:id (stored system with a candidate added earlier)"]()).toEqual({ status: 200, curves: 0 });
+    expect(await PROBES["GET /api/v1/systems/:id/search (duty-point search by token)"]()).toEqual({ status: 200, curves: 0 });
+  });
+
   test("a selection frozen on Network keeps its frozen curve points (page and JSON export)", async () => {
     const page = await call(selectionPage.loader as never, asEngineer(`/selections/${c.selectionId}`, { params: { id: String(c.selectionId) } }));
     expect(page.status).toBe(200);
@@ -206,6 +221,13 @@ describe("Network: the same paths open the shared library", () => {
   test("system workbench and live preview show the candidate's curve", async () => {
     expect((await PROBES["GET /systems/:id (workbench with a candidate added earlier)"]()).curves).toBe(1);
     expect(await PROBES["POST /api/v1/systems/:id/preview (live preview with a candidate added earlier)"]()).toEqual({ status: 200, curves: 1 });
+    expect(await PROBES["GET /api/v1/systems/:id (stored system with a candidate added earlier)"]()).toEqual({ status: 200, curves: 1 });
+  });
+
+  test("search API by token returns results of the shared library", async () => {
+    const r = await PROBES["GET /api/v1/systems/:id/search (duty-point search by token)"]();
+    expect(r.status).toBe(200);
+    expect(r.curves).toBeGreaterThan(0);
   });
 
   test("a curve of the shared library can be added as a candidate", async () => {

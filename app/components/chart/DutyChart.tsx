@@ -941,11 +941,11 @@ function Legend({
 
 /* ------------------------------------------------------------------ table view */
 
-/** The chart's numbers as tables: curves at ~10 flows, then the marked points. */
+/** The chart's numbers as tables: curves at ~8 flows over the axis, then the marked points. */
 export function ChartTables({ model }: { model: ChartModel }) {
   const u = model.units;
   const kinds = model.panels.map((p) => p.kind);
-  const flows = model.x.ticks(10).filter((f) => f >= 0 && f <= model.flowMax);
+  const flows = model.x.ticks(8).filter((f) => f >= 0 && f <= model.flowMax);
   const colName: Record<string, string> = {
     head: `Head (${u.head.label})`,
     efficiency: "Eff. (%)",

@@ -245,3 +245,31 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
   out.push({ flow: hi, y: interpolateAt(pts, hi)! });
   return out;
 }
+
+/**
+ * Where a pump curve meets a system curve, both as points (linear between points): the crossing at
+ * the highest flow where pump head − system head changes sign, over the flows both cover; null if
+ * they do not meet there. Used where only sampled curves are at hand (stored field-check charts).
+ */
+export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
+  const p = cleanPoints(pump);
+  const s = cleanPoints(system);
+  if (p.length < 2 || s.length < 2) return null;
+  const lo = Math.max(p[0].flow, s[0].flow);
+  const hi = Math.min(p[p.length - 1].flow, s[s.length - 1].flow);
+  if (!(hi > lo)) return null;
+  const flows = Array.from(new Set([lo, hi, ...p.map((q) => q.flow), ...s.map((q) => q.flow)].filter((f) => f >= lo && f <= hi))).sort((a, b) => a - b);
+  let found: Pt | null = null;
+  let prev: { f: number; g: number } | null = null;
+  for (const f of flows) {
+    const g = (interpolateAt(p, f) as number) - (interpolateAt(s, f) as number);
+    if (g === 0) found = { flow: f, y: interpolateAt(p, f) as number };
+    else if (prev && prev.g * g < 0) {
+      const t = prev.g / (prev.g - g);
+      const flow = prev.f + t * (f - prev.f);
+      found = { flow, y: interpolateAt(p, flow) as number };
+    }
+    prev = { f, g };
+  }
+  return found;
+}

@@ -12,7 +12,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { DECIMALS, G, RHO, curveKeyMm, generateDemo, type DemoCurve, type DemoDistributor } from "../../../fixtures/demo/generate";
 import { demoLibraries } from "../../../fixtures/demo";
-import { DEMO_WORKSPACES } from "../../../db/seed";
+import { DEMO_WORKSPACES } from "../../cli/seed";
 import { analyseCsv, type CurveSet } from "./index";
 
 const M3H = 1 / 3600; // m³/s per m³/h (definition of the hour)
@@ -71,7 +71,7 @@ describe("generator and committed files", () => {
   it("demoLibraries() gives three invented distributors, the demo distributor workspace first, one clean file each", () => {
     const libs = demoLibraries();
     expect(libs.map((l) => l.distributor)).toEqual(["Harrow & Vell Pumps", "Nordquay Hydraulics", "Tallowmere Fluid Systems"]); // source: brief (hand-written)
-    expect(DEMO_WORKSPACES.map((w) => w.name)).toContain(libs[0].distributor); // source: db/seed.ts demo distributor workspace
+    expect(DEMO_WORKSPACES.map((w) => w.name)).toContain(libs[0].distributor); // source: app/cli/seed.ts demo distributor workspace
     for (const l of libs) {
       expect(l.files.filter((f) => !f.variantOf).map((f) => f.name), l.distributor).toHaveLength(1); // source: generator (one clean file)
       const clean = l.files.find((f) => !f.variantOf)!;

@@ -2,11 +2,11 @@
 //   create-user  --email E --password P --workspace NAME --role ROLE [--name N]
 //   create-token --email E --workspace NAME [--scope read|write] [--name N]   (prints the token alone on its last line)
 import { and, eq } from "drizzle-orm";
-import { closeDb, db, withTransaction } from "./client.server";
-import { memberships, users, workspaces } from "./schema";
-import { hashPassword, normaliseEmail } from "../app/lib/auth.server";
-import { createApiToken, newUserId, slugify } from "../app/lib/accounts.server";
-import { isRole } from "../app/lib/permissions";
+import { closeDb, db, withTransaction } from "../../db/client.server";
+import { memberships, users, workspaces } from "../../db/schema";
+import { hashPassword, normaliseEmail } from "../lib/auth.server";
+import { createApiToken, newUserId, slugify } from "../lib/accounts.server";
+import { isRole } from "../lib/permissions";
 
 function flags(argv: string[]): Record<string, string> {
   const out: Record<string, string> = {};

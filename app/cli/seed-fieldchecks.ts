@@ -1,13 +1,13 @@
 // Demo data for field checks, idempotent: both Kestrel projects shared with Lowmoor Commissioning,
 // and one demo check recorded by Lowmoor's contractor on the first selection (no e-mail sent).
 import { and, eq } from "drizzle-orm";
-import { db } from "./client.server";
-import { fieldChecks, projects, projectShares, selections, users, workspaces } from "./schema";
-import { evaluateCheck, fieldSelection, recordFieldCheck } from "../app/lib/fieldchecks.server";
-import { blankFields, type Readings } from "../app/lib/fieldcheck-form";
-import { fluidOf } from "../app/lib/hydraulics";
-import { G0 } from "../app/engine";
-import type { Viewer } from "../app/lib/libraries.server";
+import { db } from "../../db/client.server";
+import { fieldChecks, projects, projectShares, selections, users, workspaces } from "../../db/schema";
+import { evaluateCheck, fieldSelection, recordFieldCheck } from "../lib/fieldchecks.server";
+import { blankFields, type Readings } from "../lib/fieldcheck-form";
+import { fluidOf } from "../lib/hydraulics";
+import { G0 } from "../engine";
+import type { Viewer } from "../lib/libraries.server";
 
 export async function seedFieldChecks(): Promise<{ shared: number; checks: number }> {
   const [kestrel] = await db().select().from(workspaces).where(eq(workspaces.slug, "kestrel"));

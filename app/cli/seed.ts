@@ -1,16 +1,16 @@
 // Demo data, idempotent: running it twice changes nothing. All names are invented.
-// Run by `npm start` (not by `npm test`, whose database starts empty apart from what tests add).
+// Run by `npm start` and `npm test` (db/cli.mjs) after the migrations.
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
 import { hash } from "@node-rs/argon2";
-import { closeDb, db, withTransaction } from "./client.server";
-import { libraries, memberships, users, workspaces, type Role } from "./schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../app/lib/libraries.server";
-import { addCandidate, createProject, createSystem, listProjects, searchForSystem, selectCandidate } from "../app/lib/projects.server";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../app/lib/hydraulics";
-import { innerDiameter, material as materialOf } from "../app/engine";
-import { demoLibraries } from "../fixtures/demo";
+import { closeDb, db, withTransaction } from "../../db/client.server";
+import { libraries, memberships, users, workspaces, type Role } from "../../db/schema";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../lib/libraries.server";
+import { addCandidate, createProject, createSystem, listProjects, searchForSystem, selectCandidate } from "../lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../lib/hydraulics";
+import { innerDiameter, material as materialOf } from "../engine";
+import { demoLibraries } from "../../fixtures/demo";
 import { seedFieldChecks } from "./seed-fieldchecks";
 
 export const DEMO_PASSWORD = "duty-demo-2026";
@@ -158,9 +158,10 @@ export async function seedProjects(): Promise<number> {
   let made = 0;
   for (const d of demos) {
     if (have.some((p) => p.name === d.project.name)) continue;
-    // The duty head is the design system curve at the duty flow (nominal level, new pipe), rounded up.
+    // The duty head is the system's head at the duty flow at the band's demanding edge (most lift,
+    // aged pipe: where the verdicts are judged), rounded up to 0.5 m.
     const ev = evaluateSystem(d.input, { flowMax: d.input.duty!.flow, points: 2 });
-    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.design[1] * 2) / 2 } };
+    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.high[1] * 2) / 2 } };
     const projectId = await createProject(v, d.project);
     const systemId = await createSystem(v, projectId, d.system, input);
     const found = await searchForSystem(v, systemId);
@@ -169,6 +170,12 @@ export async function seedProjects(): Promise<number> {
     for (const r of picks) {
       const added = await addCandidate(v, systemId, r.curveSetId, { ...DEFAULT_ADJUSTMENT, method: r.method === "direct" ? "none" : r.method });
       if (added.ok) ids.push(added.id);
+    }
+    // No pump meets the duty as published: one more candidate held at a fixed drive speed (the
+    // search's speed rounded up to the next whole percent), as an engineer would set a drive.
+    if (!picks.some((r) => r.method === "direct")) {
+      const fixed = found.results.find((r) => r.method === "speed" && !picks.some((p) => p.curveSetId === r.curveSetId));
+      if (fixed) await addCandidate(v, systemId, fixed.curveSetId, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: Math.ceil(fixed.ratio * 100 + 0.5) / 100 });
     }
     if (ids[0]) await selectCandidate(v, ids[0], "", "Demo selection: best-ranked candidate, adjusted to the duty.");
     made++;

@@ -1,0 +1,89 @@
+// The /api page's section on the systems read API (GET /api/v1/systems/:id and …/search).
+
+const VERDICTS: [string, string][] = [
+  ["meets", "The operating flow is within the duty's tolerance (by default −0 % / +10 % of the duty flow; settable per system)."],
+  ["short", "The pump delivers less than the duty flow on this system."],
+  ["oversized", "The pump delivers more than the tolerance above the duty flow; the reasons say what throttling, trim or speed would save."],
+  ["outside-catalogue", "The trim or speed needed lies outside what the model publishes (smallest to largest impeller; speed 30–100 % of rated unless the model says otherwise)."],
+  ["no-operating-point", "The pump and system curves do not meet; the reasons say why (shut-off head below the static head, curve ends before the system curve, …)."],
+];
+
+const SYSTEM_FIELDS: [string, string][] = [
+  ["system", "id, name, projectId, projectName"],
+  ["input", "the stored system inputs (the same document the editor saves and POST …/preview takes)"],
+  ["evaluation", "system curve: flows (m³/s), design / low / high head (m) over the band, pressure (Pa), per-run figures at the duty flow, NPSHa (m), warnings; null with systemError when the inputs cannot be evaluated"],
+  ["flowMax", "upper end of the evaluated flow range, m³/s"],
+  ["candidates[]", "id, curveSetId, label, library, adjustment (method none/speed/trim, ratio, arrangement, pumps), result (operating point, curve, figures, warnings, and result.verdict { status, rule, reasons }), error"],
+];
+
+const SEARCH_FIELDS: [string, string][] = [
+  ["rank, label, model, type, size", "position in the ranking and the pump model's names"],
+  ["modelId, curveSetId", "ids of the pump model and of the published curve that was searched"],
+  ["library", "name of the library the curve comes from"],
+  ["curve", "the published curve: speed (rpm) and impellerDiameter (m)"],
+  ["adjustment", "kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio); speed (rpm) and diameter (m) after the adjustment"],
+  ["verdict", "{ status, rule, reasons } with a status below, or null when no verdict was computed"],
+  ["figures", "headAtDuty (m), efficiency (0–1), shaftPower (W), npshRequired (m), npshMargin (NPSHa/NPSHr), bepRatio (duty flow / BEP flow), inPor, score"],
+  ["reason, warnings", "why the result ranks where it does, in words; cautions (e.g. trim is approximate)"],
+];
+
+function FieldTable({ rows }: { rows: [string, string][] }) {
+  return (
+    <table className="w-full text-left text-sm">
+      <thead>
+        <tr className="border-b border-slate-200">
+          <th className="py-1 pr-4">field</th>
+          <th className="py-1">meaning (SI units)</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map(([f, what]) => (
+          <tr key={f} className="border-b border-slate-100 align-top">
+            <td className="py-1 pr-4 font-mono text-xs">{f}</td>
+            <td className="py-1">{what}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => React.ReactNode }) {
+  return (
+    <section id="systems" className="panel space-y-3">
+      <h2 className="text-xl font-semibold">Systems API (read)</h2>
+      <p className="text-sm text-slate-700">
+        Token or session as for the account API; needs <code>project.read</code>. A system of another workspace, or
+        an id that does not exist, answers 404; an id that is not a number, 400; errors are{" "}
+        <code>application/problem+json</code>. All numbers are SI.
+      </p>
+      <h3 className="font-semibold">GET /api/v1/systems/:id</h3>
+      <p className="text-sm text-slate-700">The stored system evaluated with its candidates: the same view as the live preview.</p>
+      <FieldTable rows={SYSTEM_FIELDS} />
+      <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed]</h3>
+      <p className="text-sm text-slate-700">
+        Pumps from the libraries open to your workspace that meet the system's stored duty, ranked:{" "}
+        <code>{"{ duty, message, stats, results: [...] }"}</code>. Without a duty, <code>results</code> is empty and{" "}
+        <code>message</code> says why; an unknown <code>method</code> is a 400.
+      </p>
+      <FieldTable rows={SEARCH_FIELDS} />
+      <h3 className="font-semibold">Verdict statuses</h3>
+      <table className="w-full text-left text-sm">
+        <tbody>
+          {VERDICTS.map(([s, what]) => (
+            <tr key={s} className="border-b border-slate-100 align-top">
+              <td className="py-1 pr-4 font-mono text-xs">{s}</td>
+              <td className="py-1">{what}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <Code>{`curl -sS https://<your Dutymark address>/api/v1/systems/42/search?method=speed \\
+  -H 'Authorization: Bearer <token>'`}</Code>
+      <p className="text-xs text-slate-600">
+        Results size pumps for design guidance only: confirm with the manufacturer's certified curves, local codes and
+        a licensed engineer.
+      </p>
+    </section>
+  );
+}

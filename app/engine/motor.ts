@@ -1,0 +1,160 @@
+/**
+ * Motor and energy.
+ * - Motor ratings: the standard series of rated outputs for low-voltage induction motors
+ *   (IEC 60034-1 / IEC 60072-1 preferred outputs, kW; from memory — check the standard).
+ * - Suggested rating: the smallest standard rating whose rating × service factor covers the
+ *   largest shaft power anywhere on the pump curve up to its last published point
+ *   (non-overloading selection, common practice), and never less than the duty power.
+ * - Motor efficiency: nominal efficiency by IE class at 50 Hz, 2- and 4-pole, from the
+ *   IEC 60034-30-1:2014 tables (from memory; check the standard for a contract). Valid
+ *   0.75–1000 kW; below 0.75 kW the 0.75 kW value is used with a warning; 200 kW and above
+ *   use the 200 kW value (the standard's values stay constant there).
+ *   Full-load values are used at every load (part-load efficiency is lower: the energy is
+ *   slightly understated below about 50 % load).
+ * - Drive (VFD) losses when a speed is set: drive efficiency 97 % (common practice for
+ *   low-voltage PWM drives at rated load, from memory).
+ * - Electrical input P_el = P_shaft / (η_motor · η_drive); energy per year = P_el × hours;
+ *   cost = kWh × tariff in the workspace's currency.
+ */
+import { EngineInputError, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+
+/** Standard rated outputs, kW (IEC 60034-1 / IEC 60072-1 series, from memory). */
+export const IEC_MOTOR_RATINGS_KW: readonly number[] = [
+  0.06, 0.09, 0.12, 0.18, 0.25, 0.37, 0.55, 0.75, 1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 11, 15, 18.5, 22, 30, 37, 45, 55, 75, 90,
+  110, 132, 160, 200, 250, 315, 355, 400, 450, 500, 560, 630, 710, 800, 900, 1000,
+];
+
+export const MOTOR_RATINGS_SOURCE = "IEC 60034-1 / IEC 60072-1 standard rated outputs (from memory)";
+
+export type IeClass = "IE2" | "IE3" | "IE4";
+export const IE_CLASSES: readonly IeClass[] = ["IE2", "IE3", "IE4"];
+export const DEFAULT_IE_CLASS: IeClass = "IE3";
+
+/** Typical drive (VFD) efficiency at rated load, fraction (common practice, from memory). */
+export const DEFAULT_DRIVE_EFFICIENCY = 0.97;
+
+export const MOTOR_EFFICIENCY_SOURCE = "IEC 60034-30-1:2014 nominal efficiencies, 50 Hz (from memory)";
+
+/** Rated outputs of the efficiency table, kW. */
+const IE_KW = [0.75, 1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 11, 15, 18.5, 22, 30, 37, 45, 55, 75, 90, 110, 132, 160, 200];
+/** Nominal efficiencies in %, by poles and class, one per IE_KW entry (IEC 60034-30-1:2014, from memory). */
+export const IE_EFFICIENCY_TABLE: Record<2 | 4, Record<IeClass, readonly number[]>> = {
+  2: {
+    IE2: [77.4, 79.6, 81.3, 83.2, 84.6, 85.8, 87.0, 88.1, 89.4, 90.3, 90.9, 91.3, 92.0, 92.5, 92.9, 93.2, 93.8, 94.1, 94.3, 94.6, 94.8, 95.0],
+    IE3: [80.7, 82.7, 84.2, 85.9, 87.1, 88.1, 89.2, 90.1, 91.2, 91.9, 92.4, 92.7, 93.3, 93.7, 94.0, 94.3, 94.7, 95.0, 95.2, 95.4, 95.6, 95.8],
+    IE4: [83.5, 85.2, 86.5, 88.0, 89.1, 90.0, 90.9, 91.7, 92.6, 93.3, 93.7, 94.0, 94.5, 94.8, 95.0, 95.3, 95.6, 95.8, 96.0, 96.2, 96.3, 96.5],
+  },
+  4: {
+    IE2: [79.6, 81.4, 82.8, 84.3, 85.5, 86.6, 87.7, 88.7, 89.8, 90.6, 91.2, 91.6, 92.3, 92.7, 93.1, 93.5, 94.0, 94.2, 94.5, 94.7, 94.9, 95.1],
+    IE3: [82.5, 84.1, 85.3, 86.7, 87.7, 88.6, 89.6, 90.4, 91.4, 92.1, 92.6, 93.0, 93.6, 93.9, 94.2, 94.6, 95.0, 95.2, 95.4, 95.6, 95.8, 96.0],
+    IE4: [85.7, 87.2, 88.2, 89.5, 90.4, 91.1, 91.9, 92.6, 93.3, 93.9, 94.2, 94.5, 94.9, 95.2, 95.4, 95.7, 96.0, 96.1, 96.3, 96.4, 96.6, 96.7],
+  },
+};
+
+/**
+ * The smallest standard rating ≥ a power, W (null above the largest in the series).
+ * @param power power to cover, W
+ */
+export function nextStandardRating(power: number): number | null {
+  const p = requireNonNegative("power", power) / 1000;
+  for (const r of IEC_MOTOR_RATINGS_KW) if (r >= p * (1 - 1e-9)) return r * 1000;
+  return null;
+}
+
+export interface MotorSuggestion {
+  /** Suggested rating, W (null when above the series). */
+  rating: number | null;
+  /** Power the rating × service factor must cover, W (the larger of duty and curve maximum). */
+  covers: number;
+  serviceFactor: number;
+  /** Why, in words with the numbers. */
+  basis: string;
+  source: string;
+}
+
+/**
+ * Suggests a motor rating from the standard series (non-overloading over the whole curve).
+ * @param input.dutyPower shaft power at the duty, W
+ * @param input.maxCurvePower largest shaft power anywhere on the curve up to its end, W (null: unknown)
+ * @param input.serviceFactor service factor (dimensionless, 1.0–1.5; default 1.0)
+ */
+export function suggestMotor(input: { dutyPower: number; maxCurvePower: number | null; serviceFactor?: number }): MotorSuggestion {
+  if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const duty = requireNonNegative("dutyPower", input.dutyPower);
+  const max = input.maxCurvePower == null ? null : requireNonNegative("maxCurvePower", input.maxCurvePower);
+  const sf = requirePositive("serviceFactor", input.serviceFactor ?? 1);
+  if (sf < 1 || sf > 1.5) throw new EngineInputError("serviceFactor", "must be between 1.0 and 1.5");
+  const covers = Math.max(duty, max ?? 0);
+  const rating = nextStandardRating(covers / sf);
+  const what = max !== null && max > duty
+    ? `largest power on the curve to its end ${(max / 1000).toFixed(2)} kW (duty ${(duty / 1000).toFixed(2)} kW)`
+    : `duty power ${(duty / 1000).toFixed(2)} kW${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
+  const basis = rating === null
+    ? `${what} is above the largest standard rating (1000 kW)`
+    : `${(rating / 1000).toString()} kW is the smallest standard rating whose rating × service factor ${sf} = ${((rating * sf) / 1000).toFixed(2)} kW covers the ${what}`;
+  return { rating, covers, serviceFactor: sf, basis, source: MOTOR_RATINGS_SOURCE };
+}
+
+/**
+ * Nominal motor efficiency by IE class (fraction), IEC 60034-30-1 table (from memory).
+ * @param rating motor rated output, W
+ * @param ieClass efficiency class "IE2" | "IE3" | "IE4" (unitless)
+ * @param poles 2 or 4 (count)
+ */
+export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CLASS, poles: 2 | 4 = 4): { efficiency: number; warnings: EngineWarning[] } {
+  const kw = requirePositive("rating", rating) / 1000;
+  if (!IE_CLASSES.includes(ieClass)) throw new EngineInputError("ieClass", `must be one of ${IE_CLASSES.join(", ")}`);
+  if (poles !== 2 && poles !== 4) throw new EngineInputError("poles", "must be 2 or 4");
+  const row = IE_EFFICIENCY_TABLE[poles][ieClass];
+  const warnings: EngineWarning[] = [];
+  if (kw > 1000) throw new EngineInputError("rating", "is above 1000 kW, the end of the IEC 60034-30-1 table");
+  if (kw < IE_KW[0]) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${kw} kW is below the table (0.75 kW): the 0.75 kW efficiency is used` });
+  // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
+  let i = 0;
+  while (i + 1 < IE_KW.length && IE_KW[i + 1] <= kw * (1 + 1e-9)) i++;
+  return { efficiency: row[i] / 100, warnings };
+}
+
+/**
+ * Poles for a pump speed on a 50 Hz supply: 2-pole above 2 200 rpm, else 4-pole (common practice).
+ * @param speed pump speed, rpm (null: 4-pole assumed)
+ */
+export function polesForSpeed(speed: number | null): 2 | 4 {
+  if (speed === null) return 4;
+  return requirePositive("speed", speed) > 2200 ? 2 : 4;
+}
+
+export interface EnergyFigures {
+  /** Electrical input, W. */
+  electricalPower: number;
+  motorEfficiency: number;
+  /** Null without a drive. */
+  driveEfficiency: number | null;
+  /** kWh per year. */
+  annualEnergyKWh: number;
+  /** Currency per year. */
+  annualCost: number;
+}
+
+/**
+ * Energy and cost per year from the electrical input.
+ * @param input.shaftPower shaft power, W
+ * @param input.motorEfficiency motor efficiency, fraction
+ * @param input.driveEfficiency drive efficiency, fraction (null: no drive)
+ * @param input.hoursPerYear running hours per year, h
+ * @param input.tariffPerKWh tariff, currency per kWh
+ */
+export function annualEnergy(input: { shaftPower: number; motorEfficiency: number; driveEfficiency: number | null; hoursPerYear: number; tariffPerKWh: number }): EnergyFigures {
+  if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const p = requireNonNegative("shaftPower", input.shaftPower);
+  const me = requirePositive("motorEfficiency", input.motorEfficiency);
+  const de = input.driveEfficiency === null ? null : requirePositive("driveEfficiency", input.driveEfficiency);
+  if (me > 1) throw new EngineInputError("motorEfficiency", "is a fraction 0–1");
+  if (de !== null && de > 1) throw new EngineInputError("driveEfficiency", "is a fraction 0–1");
+  const hours = requireNonNegative("hoursPerYear", input.hoursPerYear);
+  if (hours > 8784) throw new EngineInputError("hoursPerYear", "cannot exceed 8784 h");
+  const tariff = requireNonNegative("tariffPerKWh", input.tariffPerKWh);
+  const electricalPower = p / (me * (de ?? 1));
+  const annualEnergyKWh = (electricalPower * hours) / 1000;
+  return { electricalPower, motorEfficiency: me, driveEfficiency: de, annualEnergyKWh, annualCost: annualEnergyKWh * tariff };
+}

@@ -1,0 +1,107 @@
+/**
+ * Verdict rules: each status flips exactly where its threshold is crossed.
+ * Thresholds checked: duty flow tolerance −0 %/+10 % (common practice), published impeller
+ * range (the model's own data), speed 30–100 % of rated (common practice).
+ */
+import { describe, expect, it } from "vitest";
+import { catalogueReasons, EngineInputError, judgeCandidate, type BandEdge } from "./index.ts";
+
+const M3H = 1 / 3600;
+const QD = 100 * M3H; // duty flow (made-up)
+const edge = (q: number | null, name = "most lift, aged pipe"): BandEdge => ({ name, flow: q, head: q === null ? null : 20 });
+const judge = (q: number, extra: Partial<Parameters<typeof judgeCandidate>[0]> = {}) =>
+  judgeCandidate({ dutyFlow: QD, edges: [edge(q)], ...extra })!;
+
+describe("flow against the duty (tolerance −0 %/+10 %, common practice)", () => {
+  it("0.999 × duty is short, 1.001 × duty meets", () => {
+    expect(judge(0.999 * QD).status).toBe("short");
+    expect(judge(1.001 * QD).status).toBe("meets");
+  });
+  it("exactly the duty meets; 1.099 meets; 1.101 × duty is oversized", () => {
+    expect(judge(QD).status).toBe("meets");
+    expect(judge(1.099 * QD).status).toBe("meets");
+    expect(judge(1.101 * QD).status).toBe("oversized");
+  });
+  it("a user tolerance −5 %/+20 % moves both thresholds", () => {
+    const tolerance = { minus: 0.05, plus: 0.2 };
+    expect(judge(0.949 * QD, { tolerance }).status).toBe("short");
+    expect(judge(0.951 * QD, { tolerance }).status).toBe("meets");
+    expect(judge(1.199 * QD, { tolerance }).status).toBe("meets");
+    expect(judge(1.201 * QD, { tolerance }).status).toBe("oversized");
+  });
+  it("the verdict states its rule and the numbers", () => {
+    const v = judge(0.91 * QD);
+    expect(v.rule).toMatch(/short: operating flow at the demanding edge below duty flow/);
+    expect(v.reasons[0]).toContain("91.0 m³/h");
+    expect(v.reasons[0]).toContain("100.0 m³/h");
+    expect(v.reasons[0]).toContain("91.0 %");
+  });
+  it("oversized says what throttling, trim or speed would save", () => {
+    const v = judge(1.2 * QD, { powerNow: 8000, savings: [
+      { means: "speed", power: 5200, how: "speed 88.0 %" },
+      { means: "throttling", power: 7400, how: "valve closed to the duty" },
+    ] });
+    expect(v.status).toBe("oversized");
+    expect(v.reasons.join(" ")).toContain("Speed to the duty (speed 88.0 %): 5.20 kW shaft instead of 8.00 kW now, saving 2.80 kW (35 %)");
+    expect(v.reasons.join(" ")).toContain("Throttling to the duty");
+  });
+  it("bad input is refused", () => {
+    expect(() => judgeCandidate({ dutyFlow: QD, edges: [] })).toThrow(EngineInputError);
+    expect(() => judgeCandidate({ dutyFlow: NaN, edges: [edge(QD)] })).toThrow(EngineInputError);
+    expect(() => judgeCandidate({ dutyFlow: QD, edges: [edge(QD)], tolerance: { minus: 1, plus: 0.1 } })).toThrow(EngineInputError);
+    expect(() => judgeCandidate({ dutyFlow: QD, edges: [{ name: "x", flow: Infinity, head: 1 }] })).toThrow(EngineInputError);
+  });
+});
+
+describe("worst edge of the band decides", () => {
+  it("meets at one edge but short at the other is short, judged at the least-flow edge", () => {
+    const v = judgeCandidate({ dutyFlow: QD, edges: [edge(1.05 * QD, "least lift, new pipe"), edge(0.97 * QD, "most lift, aged pipe")] })!;
+    expect(v.status).toBe("short");
+    expect(v.edge).toBe("most lift, aged pipe");
+    expect(v.reasons[0]).toContain("105.0 m³/h at least lift, new pipe");
+  });
+  it("wide band: the least-flow edge within tolerance meets even when the other edge runs far above", () => {
+    const v = judgeCandidate({ dutyFlow: QD, edges: [edge(1.3 * QD, "least lift, new pipe"), edge(1.02 * QD, "most lift, aged pipe")] })!;
+    expect(v.status).toBe("meets");
+  });
+  it("no intersection at any edge is no-operating-point, with the reason in words", () => {
+    const v = judgeCandidate({ dutyFlow: QD, edges: [edge(1.05 * QD, "least lift, new pipe"), { name: "most lift, aged pipe", flow: null, head: null, noPointReason: "shut-off head 18.0 m is below the system's 20.0 m at zero flow" }] })!;
+    expect(v.status).toBe("no-operating-point");
+    expect(v.reasons[0]).toBe("At most lift, aged pipe: shut-off head 18.0 m is below the system's 20.0 m at zero flow.");
+  });
+  it("without a duty: null unless something else is wrong", () => {
+    expect(judgeCandidate({ dutyFlow: null, edges: [edge(QD)] })).toBeNull();
+    expect(judgeCandidate({ dutyFlow: null, edges: [edge(null)] })!.status).toBe("no-operating-point");
+  });
+});
+
+describe("catalogue limits (the model's published impellers; speed 30–100 % of rated, common practice)", () => {
+  const cat = { minDiameter: 0.175, maxDiameter: 0.195 };
+  it("trim 1 mm below the smallest published impeller is outside; at it and 1 mm above is inside", () => {
+    expect(judge(QD, { catalogue: { ...cat, diameter: 0.174 } }).status).toBe("outside-catalogue");
+    expect(judge(QD, { catalogue: { ...cat, diameter: 0.175 } }).status).toBe("meets");
+    expect(judge(QD, { catalogue: { ...cat, diameter: 0.176 } }).status).toBe("meets");
+  });
+  it("1 mm above the largest is outside; the largest itself is inside", () => {
+    expect(judge(QD, { catalogue: { ...cat, diameter: 0.196 } }).status).toBe("outside-catalogue");
+    expect(judge(QD, { catalogue: { ...cat, diameter: 0.195 } }).status).toBe("meets");
+    expect(catalogueReasons({ ...cat, diameter: 0.196 })[0]).toBe("impeller Ø196 mm is above the largest the model publishes (Ø195 mm)");
+  });
+  it("speed 29 % of rated is outside, 30 % is inside; 100 % inside, 101 % outside", () => {
+    const at = (f: number) => judge(QD, { catalogue: { speed: 2900 * f, ratedSpeed: 2900 } }).status;
+    expect(at(0.29)).toBe("outside-catalogue");
+    expect(at(0.3)).toBe("meets");
+    expect(at(1)).toBe("meets");
+    expect(at(1.01)).toBe("outside-catalogue");
+  });
+  it("a model's own speed range replaces the default; a ratio stands in when no rpm is known", () => {
+    expect(judge(QD, { catalogue: { speed: 1160, ratedSpeed: 2900, speedRange: { min: 0.5, max: 1 } } }).status).toBe("outside-catalogue");
+    expect(judge(QD, { catalogue: { speedRatio: 0.29 } }).status).toBe("outside-catalogue");
+    expect(judge(QD, { catalogue: { speedRatio: 0.3 } }).status).toBe("meets");
+  });
+  it("outside-catalogue wins over every flow verdict and names the published limit", () => {
+    const v = judge(0.5 * QD, { catalogue: { ...cat, diameter: 0.165 } });
+    expect(v.status).toBe("outside-catalogue");
+    expect(v.reasons[0]).toContain("Ø165 mm is below the smallest the model publishes (Ø175 mm)");
+  });
+});

@@ -1,0 +1,230 @@
+/**
+ * One verdict per candidate pump on a system: what an engineer signs.
+ *
+ * Rules, in the order they are applied (the first that holds decides):
+ * 1. `outside-catalogue` — the pump as configured is not one the maker publishes: a trimmed
+ *    impeller below the smallest or above the largest diameter of the model, or a speed outside
+ *    the allowed range (default 30–100 % of the model's rated speed, common practice for
+ *    variable-speed centrifugal pumps; the model may state its own range).
+ * 2. `no-operating-point` — at some edge of the system band the pump curve and the system
+ *    curve do not meet; the reason says why (shut-off head below the system's head at the
+ *    curve's first point, or the curve ends while the pump still gives more head than the
+ *    system needs).
+ * 3. `short` — at the band's demanding edge (where the pump delivers least: most static lift,
+ *    aged pipe) the operating flow is below the duty flow × (1 − minus tolerance).
+ * 4. `oversized` — at that edge it is above the duty flow × (1 + plus tolerance); the reasons
+ *    say what throttling, trim or speed would save.
+ * 5. `meets` — otherwise.
+ * Default duty flow tolerance −0 % / +10 % (common practice: the duty flow is a minimum,
+ * a tenth more is accepted margin). Comparisons allow 1 part in 10⁶ for solver round-off.
+ * Pure: numbers in, words out.
+ */
+import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
+
+export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
+
+export const VERDICT_STATUSES: readonly VerdictStatus[] = ["meets", "short", "oversized", "outside-catalogue", "no-operating-point"];
+
+/** Duty flow tolerance as fractions of the duty flow (dimensionless): accepted when Qd·(1−minus) ≤ Q ≤ Qd·(1+plus). */
+export interface FlowTolerance {
+  minus: number;
+  plus: number;
+}
+
+/** Default −0 % / +10 % (common practice). */
+export const DEFAULT_FLOW_TOLERANCE: FlowTolerance = { minus: 0, plus: 0.1 };
+
+/** Default allowed speed range as a fraction of rated speed (common practice, from memory). */
+export const DEFAULT_SPEED_RANGE = { min: 0.3, max: 1 } as const;
+
+/** Relative allowance for solver round-off in every comparison (dimensionless). */
+export const VERDICT_ROUNDOFF = 1e-6;
+
+/** One edge of the system band with the pump's operating point on it (SI). */
+export interface BandEdge {
+  /** Which edge, in words, e.g. "most lift, aged pipe". */
+  name: string;
+  /** Operating flow m³/s and head m, null without an intersection. */
+  flow: number | null;
+  head: number | null;
+  /** Why there is no intersection, in words (with numbers), when flow is null. */
+  noPointReason?: string;
+}
+
+/** What the maker publishes for the model (SI); any field may be absent. */
+export interface CatalogueLimits {
+  /** Impeller diameter in use, m (after trim). */
+  diameter?: number | null;
+  /** Smallest and largest impeller the model publishes, m. */
+  minDiameter?: number | null;
+  maxDiameter?: number | null;
+  /** Speed in use, rpm, and the model's rated speed, rpm. */
+  speed?: number | null;
+  ratedSpeed?: number | null;
+  /** Speed ratio in use when no rpm is known (N/N_curve, dimensionless). */
+  speedRatio?: number | null;
+  /** Allowed speed range as fractions of rated (dimensionless; default 0.3–1.0). */
+  speedRange?: { min: number; max: number };
+}
+
+/** What a smaller pump duty would cost in power, for the oversized reasons (W). */
+export interface SavingOption {
+  /** "throttling", "trim" or "speed". */
+  means: "throttling" | "trim" | "speed";
+  /** Shaft power at the duty flow with this means, W (null when it cannot be found). */
+  power: number | null;
+  /** How, in words (e.g. "speed 87.2 % (2 529 rpm)"). */
+  how: string;
+}
+
+export interface VerdictInput {
+  /** Duty flow, m³/s; null when the system has no duty point. */
+  dutyFlow: number | null;
+  tolerance?: FlowTolerance;
+  /** Operating points at the band's edges; the demanding edge is the one with the least flow. */
+  edges: BandEdge[];
+  catalogue?: CatalogueLimits;
+  /** Shaft power now at the demanding edge, W, and the options that would bring it to the duty. */
+  powerNow?: number | null;
+  savings?: SavingOption[];
+}
+
+export interface Verdict {
+  status: VerdictStatus;
+  /** The rule that decided, with its threshold, in words. */
+  rule: string;
+  /** Plain words with the numbers. */
+  reasons: string[];
+  /** The edge the verdict was judged at (the demanding edge), when there is one. */
+  edge: string | null;
+}
+
+const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
+const mm = (d: number) => `Ø${(d * 1000).toFixed(0)} mm`;
+const kw = (p: number) => `${(p / 1000).toFixed(2)} kW`;
+const pc = (x: number, digits = 1) => `${(x * 100).toFixed(digits)} %`;
+
+function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {
+  if (t === undefined) return DEFAULT_FLOW_TOLERANCE;
+  if (!t || typeof t !== "object") throw new EngineInputError("tolerance", "must be { minus, plus }");
+  const minus = requireNonNegative("tolerance.minus", t.minus);
+  const plus = requireNonNegative("tolerance.plus", t.plus);
+  if (minus >= 1) throw new EngineInputError("tolerance.minus", "must be below 1 (a fraction of the duty flow)");
+  return { minus, plus };
+}
+
+/**
+ * Catalogue reasons (empty when the pump is inside what the maker publishes).
+ * @param c diameters m, speeds rpm, speed ratio and range (dimensionless)
+ */
+export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
+  if (!c) return [];
+  const out: string[] = [];
+  const eps = VERDICT_ROUNDOFF;
+  const d = c.diameter ?? null;
+  if (d !== null) {
+    requirePositive("catalogue.diameter", d);
+    const lo = c.minDiameter ?? null, hi = c.maxDiameter ?? null;
+    if (lo !== null && d < requirePositive("catalogue.minDiameter", lo) * (1 - eps))
+      out.push(`impeller ${mm(d)} is below the smallest the model publishes (${mm(lo)})`);
+    if (hi !== null && d > requirePositive("catalogue.maxDiameter", hi) * (1 + eps))
+      out.push(`impeller ${mm(d)} is above the largest the model publishes (${mm(hi)})`);
+  }
+  const range = c.speedRange ?? DEFAULT_SPEED_RANGE;
+  const rMin = requirePositive("catalogue.speedRange.min", range.min), rMax = requirePositive("catalogue.speedRange.max", range.max);
+  if (rMin > rMax) throw new EngineInputError("catalogue.speedRange.min", "must not exceed max");
+  let frac: number | null = null;
+  let what = "";
+  if (c.speed != null && c.ratedSpeed != null) {
+    frac = requirePositive("catalogue.speed", c.speed) / requirePositive("catalogue.ratedSpeed", c.ratedSpeed);
+    what = `${Math.round(c.speed)} rpm is ${pc(frac)} of the rated ${Math.round(c.ratedSpeed)} rpm`;
+  } else if (c.speedRatio != null) {
+    frac = requirePositive("catalogue.speedRatio", c.speedRatio);
+    what = `speed ${pc(frac)} of the curve's speed`;
+  }
+  if (frac !== null) {
+    if (frac < rMin * (1 - eps)) out.push(`${what}, below the allowed ${pc(rMin, 0)}`);
+    else if (frac > rMax * (1 + eps)) out.push(`${what}, above the allowed ${pc(rMax, 0)}`);
+  }
+  return out;
+}
+
+/**
+ * The verdict for one candidate (see the rules at the top of this module).
+ * @param input.dutyFlow duty flow, m³/s (null: no duty set — only catalogue and intersection are judged)
+ * @param input.tolerance duty flow tolerance, fractions (dimensionless; default −0/+0.10)
+ * @param input.edges operating points at the band edges, m³/s and m
+ * @param input.catalogue diameters m, speeds rpm, ratios (dimensionless)
+ * @param input.powerNow shaft power at the demanding edge, W
+ * @param input.savings shaft power at the duty by throttling, trim or speed, W
+ * @returns the verdict, or null when there is no duty and nothing else to say
+ */
+export function judgeCandidate(input: VerdictInput): Verdict | null {
+  if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const tol = checkTolerance(input.tolerance);
+  const qd = input.dutyFlow === null || input.dutyFlow === undefined ? null : requirePositive("dutyFlow", input.dutyFlow);
+  if (!Array.isArray(input.edges) || input.edges.length === 0) throw new EngineInputError("edges", "needs at least one band edge");
+  for (const e of input.edges) {
+    if (e.flow !== null) requireNonNegative("edges.flow", e.flow);
+    if (e.head !== null) requireFinite("edges.head", e.head);
+  }
+  const eps = VERDICT_ROUNDOFF;
+
+  const cat = catalogueReasons(input.catalogue);
+  if (cat.length) {
+    return { status: "outside-catalogue", edge: null,
+      rule: `outside-catalogue: impeller within the model's published diameters and speed within ${pc((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${pc((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
+      reasons: cat.map((r) => `The ${r}: no published curve backs this pump.`) };
+  }
+
+  const missing = input.edges.filter((e) => e.flow === null || e.head === null);
+  if (missing.length) {
+    return { status: "no-operating-point", edge: missing[0].name,
+      rule: "no-operating-point: the pump curve must cross the system curve at every edge of the band",
+      reasons: missing.map((e) => `At ${e.name}: ${e.noPointReason ?? "the pump curve does not cross the system curve"}.`) };
+  }
+  if (qd === null) return null;
+
+  // The demanding edge: least flow.
+  const worst = input.edges.reduce((a, b) => ((b.flow as number) < (a.flow as number) ? b : a));
+  const best = input.edges.reduce((a, b) => ((b.flow as number) > (a.flow as number) ? b : a));
+  const q = worst.flow as number;
+  const lo = qd * (1 - tol.minus), hi = qd * (1 + tol.plus);
+  const band = input.edges.length > 1 ? ` (${m3h(best.flow as number)} at ${best.name})` : "";
+  const ratio = q / qd;
+  const tolText = `−${pc(tol.minus, 0)}/+${pc(tol.plus, 0)}`;
+  if (q < lo * (1 - eps)) {
+    return { status: "short", edge: worst.name,
+      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${tol.minus}) = ${m3h(lo)}`,
+      reasons: [`Delivers ${m3h(q)} at ${worst.name} against a duty of ${m3h(qd)}: ${pc(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
+  }
+  if (q > hi * (1 + eps)) {
+    const reasons = [`Delivers ${m3h(q)} at ${worst.name}, its least flow in the band, against a duty of ${m3h(qd)}: ${pc(ratio)} of the duty, above the tolerance ${tolText}.`];
+    const now = input.powerNow ?? null;
+    for (const s of input.savings ?? []) {
+      if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
+      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${kw(s.power)} shaft instead of ${kw(now)} now, ${s.power < now ? `saving ${kw(now - s.power)} (${pc((now - s.power) / now, 0)})` : "no saving"}.`);
+    }
+    return { status: "oversized", edge: worst.name,
+      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${tol.plus}) = ${m3h(hi)}`, reasons };
+  }
+  return { status: "meets", edge: worst.name,
+    rule: `meets: operating flow at the demanding edge within ${m3h(lo)}–${m3h(hi)} (duty ${m3h(qd)}, tolerance ${tolText})`,
+    reasons: [`Delivers ${m3h(q)} at ${worst.name}, ${pc(ratio)} of the duty ${m3h(qd)}${band}.`] };
+}
+
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/**
+ * Short label for a status (tables, legends).
+ * @param status verdict status (unitless)
+ */
+export function verdictLabel(status: VerdictStatus): string {
+  switch (status) {
+    case "meets": return "meets the duty";
+    case "short": return "short of the duty";
+    case "oversized": return "oversized";
+    case "outside-catalogue": return "outside the catalogue";
+    case "no-operating-point": return "no operating point";
+  }
+}

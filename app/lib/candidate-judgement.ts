@@ -1,0 +1,203 @@
+// What the product concludes about one candidate on a system: operating points at both edges of
+// the band, the verdict (engine rules in app/engine/verdict.ts), the motor suggestion and the
+// energy from electrical input (app/engine/motor.ts). Pure: used by evaluateCandidate in
+// hydraulics.ts on the server and in the browser.
+import {
+  annualEnergy,
+  judgeCandidate,
+  motorEfficiency,
+  npshAvailable,
+  npshrAt,
+  polesForSpeed,
+  scaleBySpeed,
+  scaleByTrim,
+  shaftPowerAt,
+  efficiencyAt,
+  solveOperatingPoint,
+  speedForDuty,
+  suggestMotor,
+  suctionLoss,
+  systemHeadFunction,
+  trimForDuty,
+  DEFAULT_DRIVE_EFFICIENCY,
+  MOTOR_EFFICIENCY_SOURCE,
+  type CatalogueLimits,
+  type IeClass,
+  type OperatingPointResult,
+  type PreparedSystem,
+  type PumpCurve,
+  type SavingOption,
+  type SystemCase,
+  type Verdict,
+} from "~/engine";
+
+/** The two edges of the band: where the pump delivers most and least. */
+export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
+  return mode === "open"
+    ? [
+        { name: "least lift, new pipe", which: { level: "min", roughness: "new" } },
+        { name: "most lift, aged pipe", which: { level: "max", roughness: "aged" } },
+      ]
+    : [
+        { name: "new pipe", which: { level: "nominal", roughness: "new" } },
+        { name: "aged pipe", which: { level: "nominal", roughness: "aged" } },
+      ];
+}
+
+/** The demanding edge (most lift, aged pipe): the system head that governs speed/trim solves. */
+export const GOVERNING_CASE: SystemCase = { level: "max", roughness: "aged" };
+export const governingName = (mode: "open" | "closed-loop") => (mode === "open" ? "most lift, aged pipe" : "aged pipe");
+
+const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
+const m = (h: number) => `${h.toFixed(1)} m`;
+
+/** Why a solve found no operating point, in words with the numbers. */
+export function noPointReason(op: OperatingPointResult): string {
+  const f = op.atFirstPoint, l = op.atLastPoint;
+  if (op.status === "no-intersection-shutoff-below-static") {
+    return f.flow === 0
+      ? `shut-off head ${m(f.pumpHead)} is below the system's ${m(f.systemHead)} at zero flow: the pump cannot open its check valve`
+      : `the pump gives ${m(f.pumpHead)} at its first published point (${m3h(f.flow)}), below the system's ${m(f.systemHead)} there, and the curves never meet`;
+  }
+  if (op.status === "beyond-curve-end") {
+    return `the curve ends at ${m3h(l.flow)} still giving ${m(l.pumpHead)} against the system's ${m(l.systemHead)}: the pump would run past its published curve`;
+  }
+  return op.message;
+}
+
+export type BandPoint = {
+  edge: string;
+  flow: number | null;
+  head: number | null;
+  efficiency: number | null;
+  shaftPower: number | null;
+  npshMarginRatio: number | null;
+  reason: string | null;
+};
+
+export type MotorFigures = {
+  suggestedRating: number | null;
+  suggestionBasis: string;
+  /** Rating used for the checks and the energy: the user's, else the suggestion, W. */
+  rating: number | null;
+  ratingSource: "user" | "suggested" | null;
+  ieClass: IeClass;
+  efficiency: number | null;
+  efficiencySource: string;
+  driveEfficiency: number | null;
+  driveSource: string | null;
+  electricalPower: number | null;
+  annualEnergyKWh: number | null;
+  annualCost: number | null;
+  currency: string;
+  warnings: string[];
+};
+
+type Ctx = {
+  mode: "open" | "closed-loop";
+  prepared: PreparedSystem;
+  base: PumpCurve;
+  /** One pump's curve as adjusted. */
+  curve: PumpCurve;
+  combined: PumpCurve;
+  arrangement: "single" | "parallel" | "series";
+  n: number;
+  suction: { surfacePressure: number; staticHead: number };
+};
+
+/** Operating points and figures at both edges of the band. */
+export function bandPoints(ctx: Ctx): BandPoint[] {
+  const rho = ctx.prepared.fluid.density;
+  const k = ctx.arrangement === "single" ? 1 : ctx.n;
+  return bandEdges(ctx.mode).map(({ name, which }) => {
+    const op = solveOperatingPoint(ctx.combined, systemHeadFunction(ctx.prepared, which));
+    if (op.flow == null || op.head == null) return { edge: name, flow: null, head: null, efficiency: null, shaftPower: null, npshMarginRatio: null, reason: noPointReason(op) };
+    const q1 = ctx.arrangement === "parallel" ? op.flow / ctx.n : op.flow;
+    const inCurve = q1 >= ctx.curve.flowMin && q1 <= ctx.curve.flowMax;
+    const p = inCurve ? shaftPowerAt(ctx.curve, q1, rho) : null;
+    const nr = inCurve ? npshrAt(ctx.curve, q1) : null;
+    const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
+      staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
+    return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
+      shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, reason: null };
+  });
+}
+
+/** Shaft power at the duty by throttling, trim or speed (for the oversized verdict), W. */
+export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }): SavingOption[] {
+  const rho = ctx.prepared.fluid.density;
+  const k = ctx.arrangement === "single" ? 1 : ctx.n;
+  const per = ctx.arrangement === "parallel" ? { flow: duty.flow / ctx.n, head: duty.head } : ctx.arrangement === "series" ? { flow: duty.flow, head: duty.head / ctx.n } : duty;
+  const at = (c: PumpCurve) => (per.flow >= c.flowMin && per.flow <= c.flowMax ? shaftPowerAt(c, per.flow, rho) : null);
+  const times = (p: number | null) => (p == null ? null : p * k);
+  const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${m3h(duty.flow)} flows` }];
+  const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
+  if (sp.status === "ok" && sp.ratio) {
+    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${(sp.ratio * 100).toFixed(1)} % speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}` });
+  }
+  const tr = trimForDuty(ctx.base, per);
+  if (tr.status === "ok" && tr.ratio) {
+    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${(tr.diameter * 1000).toFixed(0)} mm)` : ""}, approximate` });
+  }
+  return out;
+}
+
+/** The verdict on the band (worst edge), with savings when oversized. */
+export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number; head: number } | null, tolerance: { minus: number; plus: number }, catalogue: CatalogueLimits | undefined): Verdict | null {
+  const edges = band.map((b) => ({ name: b.edge, flow: b.flow, head: b.head, noPointReason: b.reason ?? undefined }));
+  const first = judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue });
+  if (first?.status !== "oversized" || !duty) return first;
+  const worst = band.reduce((a, b) => ((b.flow ?? Infinity) < (a.flow ?? Infinity) ? b : a));
+  const governing = systemHeadFunction(ctx.prepared, bandEdges(ctx.mode).find((e) => e.name === worst.edge)!.which)(duty.flow);
+  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }) });
+}
+
+/**
+ * Motor suggestion (IEC series), efficiency by IE class, drive losses when a speed is set, and the
+ * energy per year from the electrical input at the design operating point.
+ */
+export function motorFigures(o: {
+  shaftPower: number | null;
+  maxCurvePower: number | null;
+  pumps: number;
+  userRating: number;
+  serviceFactor: number;
+  ieClass: IeClass;
+  speedDrive: boolean;
+  ratedSpeed: number | null;
+  hoursPerYear: number;
+  tariffPerKWh: number;
+  currency: string;
+}): MotorFigures {
+  const warnings: string[] = [];
+  const perPump = o.shaftPower != null ? o.shaftPower / o.pumps : null;
+  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower, serviceFactor: o.serviceFactor }) : null;
+  const rating = o.userRating > 0 ? o.userRating : s?.rating ?? null;
+  let efficiency: number | null = null;
+  if (rating != null) {
+    const me = motorEfficiency(Math.min(rating, 1e6), o.ieClass, polesForSpeed(o.ratedSpeed));
+    efficiency = me.efficiency;
+    warnings.push(...me.warnings.map((w) => w.message));
+  }
+  const drive = o.speedDrive ? DEFAULT_DRIVE_EFFICIENCY : null;
+  let energy: ReturnType<typeof annualEnergy> | null = null;
+  if (o.shaftPower != null && efficiency != null) {
+    energy = annualEnergy({ shaftPower: o.shaftPower, motorEfficiency: efficiency, driveEfficiency: drive, hoursPerYear: o.hoursPerYear, tariffPerKWh: o.tariffPerKWh });
+  }
+  return {
+    suggestedRating: s?.rating ?? null,
+    suggestionBasis: s ? `${s.basis} (${s.source})` : "no shaft power at the operating point: no motor suggested",
+    rating,
+    ratingSource: o.userRating > 0 ? "user" : rating != null ? "suggested" : null,
+    ieClass: o.ieClass,
+    efficiency,
+    efficiencySource: `${o.ieClass}, ${polesForSpeed(o.ratedSpeed)}-pole, full-load value; ${MOTOR_EFFICIENCY_SOURCE}`,
+    driveEfficiency: drive,
+    driveSource: drive != null ? "variable-speed drive 97 % (common practice, from memory)" : null,
+    electricalPower: energy?.electricalPower ?? null,
+    annualEnergyKWh: o.hoursPerYear > 0 ? (energy?.annualEnergyKWh ?? null) : null,
+    annualCost: o.hoursPerYear > 0 ? (energy?.annualCost ?? null) : null,
+    currency: o.currency,
+    warnings,
+  };
+}

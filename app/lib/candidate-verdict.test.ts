@@ -1,0 +1,186 @@
+// Candidates on a system (pure): the band, the verdict, the duty check, motor and energy, and a
+// property sweep over every demo curve set. Check values: the product's rules (app/engine/verdict.ts,
+// thresholds from common practice), IEC 60034-30-1 (from memory) for the motor efficiency, and
+// identities that hold by construction.
+import * as v from "valibot";
+import { describe, expect, it } from "vitest";
+import { generateDemo, type DemoCurve } from "../../fixtures/demo/generate";
+import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, type CurvePointsIn, type SystemInput } from "./hydraulics";
+import { motorEfficiency, innerDiameter, material } from "~/engine";
+
+const M3H = 1 / 3600;
+const steel = material("steel");
+
+/** Demo curve in SI (points as stored: m³/s, m, fraction, W, m). */
+function si(c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } {
+  return {
+    speed: c.speed,
+    impellerDiameter: c.impellerMm / 1000,
+    points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
+  };
+}
+const demo = generateDemo();
+const allCurves = demo.flatMap((d) => d.curves);
+const curve = (model: string, speed: number, mm: number) => allCurves.find((c) => c.model === model && c.speed === speed && c.impellerMm === mm)!;
+const catalogueOf = (model: string) => {
+  const sets = allCurves.filter((c) => c.model === model);
+  return { impellerMin: Math.min(...sets.map((c) => c.impellerMm)) / 1000, impellerMax: Math.max(...sets.map((c) => c.impellerMm)) / 1000, ratedSpeed: Math.max(...sets.map((c) => c.speed)) };
+};
+
+/** A closed chilled-water loop like the demo's "CHW secondary loop" (invented): 6 in steel, 180 m discharge. */
+function chw(dischargeLength = 180): SystemInput {
+  const d6 = innerDiameter("steel-sch40", "6");
+  return {
+    ...defaultSystemInput(),
+    temperatureC: 7,
+    mode: "closed-loop",
+    staticLow: 0,
+    staticHigh: 0,
+    controlHead: 14,
+    suctionSurfacePressure: 101325 + 150000,
+    suctionStaticHead: 1,
+    runs: [
+      { side: "suction", name: "Header to pump", pipeTable: "steel-sch40", nominal: "6", diameter: d6, material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 12, fittings: [{ id: "elbow-90-standard", count: 3 }], extraK: 0 },
+      { side: "discharge", name: "Riser", pipeTable: "steel-sch40", nominal: "6", diameter: d6, material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: dischargeLength, fittings: [{ id: "elbow-90-standard", count: 16 }, { id: "swing-check", count: 1 }], extraK: 4 },
+    ],
+    duty: { flow: 100 * M3H, head: 20 },
+    hoursPerYear: 3200,
+    tariffPerKWh: 0.24,
+  };
+}
+
+const MEREGATE_150 = "TFS Meregate 150";
+
+describe("the band and the verdict on a system", () => {
+  const set = si(curve(MEREGATE_150, 2900, 195));
+  const cat = catalogueOf(MEREGATE_150);
+
+  it("operating points at both edges; the verdict is judged where the pump delivers least", () => {
+    const r = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: cat });
+    expect(r.band.map((b) => b.edge)).toEqual(["new pipe", "aged pipe"]);
+    const [lo, hi] = r.band;
+    expect(lo.flow!).toBeGreaterThan(hi.flow!); // aged pipe: higher system curve, less flow (by construction)
+    // Solved at the demanding edge: exactly the duty flow there (our rule; 1e-6 solver round-off).
+    expect(hi.flow! / (100 * M3H)).toBeCloseTo(1, 6);
+    expect(r.verdict!.status).toBe("meets");
+    expect(r.verdict!.edge).toBe("aged pipe");
+    expect(r.ratioNote).toMatch(/system's head at the duty flow 100\.0 m³\/h, \d+\.\d m at aged pipe \(typed duty head 20\.0 m\)/);
+  });
+
+  it("a pump held at a fixed speed meets, then turns short when the discharge run is three times as long", () => {
+    const solved = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: cat }).ratio;
+    const fixed = { ...DEFAULT_ADJUSTMENT, method: "speed" as const, ratio: Math.ceil(solved * 100 + 0.5) / 100 };
+    const before = evaluateCandidate(chw(180), set, fixed, { catalogue: cat });
+    const after = evaluateCandidate(chw(540), set, fixed, { catalogue: cat });
+    expect(before.verdict!.status).toBe("meets");
+    expect(after.verdict!.status).toBe("short");
+    expect(after.band[1].flow!).toBeLessThan(100 * M3H);
+    expect(after.verdict!.reasons[0]).toMatch(/^Delivers \d+\.\d m³\/h at aged pipe against a duty of 100\.0 m³\/h/);
+    // The speed-solved candidate re-solves against the longer pipe and still meets.
+    expect(evaluateCandidate(chw(540), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: cat }).verdict!.status).toBe("meets");
+  });
+
+  it("a pump held at a speed well above the one that meets the duty is oversized and says what speed, trim or throttling would save", () => {
+    const solved = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: cat }).ratio;
+    const r = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: solved + 0.04 }, { catalogue: cat });
+    expect(r.band[1].flow!).toBeGreaterThan(110 * M3H);
+    expect(r.verdict!.status).toBe("oversized");
+    const text = r.verdict!.reasons.join(" ");
+    expect(text).toMatch(/Speed to the duty \(\d+\.\d % speed \(\d+ rpm\)\): \d+\.\d\d kW shaft instead of \d+\.\d\d kW now, saving/);
+    expect(text).toMatch(/Throttling to the duty/);
+  });
+
+  it("a trim below the model's smallest published impeller is outside the catalogue (demo data: Ø175–195 mm)", () => {
+    expect(cat.impellerMin).toBeCloseTo(0.175, 9);
+    const at = (ratio: number) => evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "trim", ratio }, { catalogue: cat }).verdict!;
+    expect(at(0.174 / 0.195).status).toBe("outside-catalogue");
+    expect(at(0.176 / 0.195).status).not.toBe("outside-catalogue");
+  });
+
+  it("shut-off head below the system: no operating point, with the reason in numbers", () => {
+    const r = evaluateCandidate({ ...chw(), controlHead: 60 }, set, DEFAULT_ADJUSTMENT, { catalogue: cat });
+    expect(r.verdict!.status).toBe("no-operating-point");
+    expect(r.verdict!.reasons[0]).toMatch(/^At new pipe: shut-off head \d+\.\d m is below the system's 60\.0 m at zero flow/);
+  });
+});
+
+describe("the typed duty against the system (3 %, common practice)", () => {
+  it("flags a typed head more than 3 % from the system's head at the duty flow, and says which governs", () => {
+    const base = chw();
+    const governing = evaluateSystem(base).dutyCheck!.governingHead;
+    const at = (k: number) => evaluateSystem({ ...base, duty: { flow: 100 * M3H, head: governing * k } }).dutyCheck!;
+    expect(at(1.029).differs).toBe(false);
+    expect(at(1.031).differs).toBe(true);
+    expect(at(0.969).differs).toBe(true);
+    expect(at(1.031).message).toMatch(/differs by 3\.1 % from the system's head at 100\.0 m³\/h/);
+    expect(at(1.031).governs).toMatch(/Speed and trim solves and the verdicts use the system's head .* the pump search uses the typed duty head/);
+  });
+});
+
+describe("motor and energy from the electrical input", () => {
+  it("suggests a standard rating and takes IE3 and the drive's 97 % into the energy", () => {
+    const set = si(curve(MEREGATE_150, 2900, 195));
+    const r = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: catalogueOf(MEREGATE_150), currency: "GBP" });
+    const f = r.figures!;
+    const mo = f.motor;
+    expect([5500, 7500, 11000, 15000]).toContain(mo.suggestedRating); // IEC series (from memory)
+    expect(mo.rating! * 1).toBeGreaterThanOrEqual(f.maxPower!); // non-overloading to the curve's end
+    expect(mo.efficiency).toBe(motorEfficiency(mo.rating!, "IE3", 2).efficiency); // IEC 60034-30-1, 2-pole (from memory)
+    expect(mo.driveEfficiency).toBe(0.97); // common practice
+    expect(mo.electricalPower!).toBeCloseTo(f.shaftPower! / (mo.efficiency! * 0.97), 6);
+    expect(f.annualEnergyKWh!).toBeCloseTo((mo.electricalPower! * 3200) / 1000, 6);
+    expect(f.annualCost!).toBeCloseTo(f.annualEnergyKWh! * 0.24, 6);
+    expect(mo.currency).toBe("GBP");
+    expect(f.nonOverloading).toBe(true);
+  });
+  it("documents stored before these fields parse with the defaults (−0/+10 %, IE3)", () => {
+    const { flowTolerance: _t, ...old } = defaultSystemInput();
+    expect(v.parse(SystemInputSchema, old).flowTolerance).toEqual({ minus: 0, plus: 0.1 });
+    const { ieClass: _c, ...oldAdj } = DEFAULT_ADJUSTMENT;
+    expect(v.parse(AdjustmentSchema, oldAdj).ieClass).toBe("IE3");
+  });
+});
+
+describe("property: over every demo curve set, `meets` never comes with an operating flow below the duty", () => {
+  // Systems around each curve: the duty at 50–110 % of the curve's BEP flow, the system drawn through
+  // the curve's head there scaled 0.8–1.2 (so pumps land short, meeting and oversized), open with a lift band.
+  const sets = allCurves;
+  it(`sweeps ${sets.length} curve sets × 12 systems × 3 adjustments`, () => {
+    let judged = 0, meets = 0, short = 0;
+    for (const c of sets) {
+      const s = si(c);
+      const bep = s.points.reduce((a, b) => ((b.efficiency ?? 0) > (a.efficiency ?? 0) ? b : a));
+      for (const qf of [0.5, 0.8, 0.95, 1.1]) {
+        for (const hf of [0.8, 1, 1.2]) {
+          const qd = bep.flow * qf;
+          const hp = s.points.find((p) => p.flow >= qd)!.head;
+          const input: SystemInput = {
+            ...defaultSystemInput(),
+            staticLow: hp * hf * 0.5,
+            staticHigh: hp * hf * 0.6,
+            duty: { flow: qd, head: hp * hf },
+          };
+          for (const adj of [DEFAULT_ADJUSTMENT, { ...DEFAULT_ADJUSTMENT, method: "speed" as const }, { ...DEFAULT_ADJUSTMENT, method: "trim" as const }]) {
+            let r;
+            try {
+              r = evaluateCandidate(input, s, adj, { catalogue: catalogueOf(c.model) });
+            } catch {
+              continue; // an input the engine refuses is not a verdict
+            }
+            if (!r.verdict) continue;
+            judged++;
+            if (r.verdict.status === "short") short++;
+            if (r.verdict.status !== "meets") continue;
+            meets++;
+            for (const b of r.band) expect(b.flow!).toBeGreaterThanOrEqual(qd * (1 - 1e-6));
+            expect(r.operating!.flow).toBeGreaterThanOrEqual(qd * (1 - 1e-6));
+          }
+        }
+      }
+    }
+    // The sweep reaches both sides of the threshold (else it proves nothing).
+    expect(judged).toBeGreaterThan(sets.length * 20);
+    expect(meets).toBeGreaterThan(50);
+    expect(short).toBeGreaterThan(50);
+  });
+});

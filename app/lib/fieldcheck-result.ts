@@ -1,0 +1,29 @@
+// What a recorded field check stores as its result (computed once at submission by
+// fieldchecks.server.ts): a plain type shared by the server and the components that show it.
+import type { FieldCheckResult } from "~/engine";
+import type { Verdict } from "./fieldcheck-form";
+
+export type Pt = { flow: number; y: number };
+
+export type CheckResult = {
+  format: string;
+  grade: { id: string; flow: readonly [number, number]; head: readonly [number, number]; source: string };
+  verdict: Verdict;
+  verdictText: string;
+  message: string;
+  engine: FieldCheckResult;
+  fluid: { name: string; density: number };
+  /** rpm: the curve's rated speed, the selection's design speed, the measured speed; ratio measured / rated. */
+  speed: { rated: number | null; design: number | null; measured: number | null; rescaled: boolean; designRatio: number | null };
+  /** Gauge pressures on one reference (gauge), Pa, and the head uncertainty, m. */
+  gauges: { suction: number; discharge: number; headUncertainty: number; assumedAtmosphere: boolean };
+  /** Per-pump design duty, m³/s and m (from the system's duty, or the selection's operating point). */
+  duty: { flow: number; head: number } | null;
+  delivered: { flow: number | null; head: number };
+  /** Fractions: measured vs the rescaled curve and vs the design duty. */
+  deviation: { curveFlow: number | null; curveHead: number | null; dutyFlow: number | null; dutyHead: number | null };
+  power: { input: number | null; hydraulic: number | null; overall: number | null; shaft: number | null; pump: number | null; curve: number | null } | null;
+  hints: string[];
+  warnings: string[];
+  chart: { selected: Pt[]; measured: Pt[]; selectedEff: Pt[]; measuredEff: Pt[]; system: Pt[] | null; flowMax: number; band: { low: number | null; high: number | null } | null; selectedLabel: string; measuredLabel: string };
+};

@@ -1,0 +1,86 @@
+// One duty-point search result as the read API returns it (pure; SI units). The search's own
+// result carries the figures; the curve set's model id and library come from the caller when the
+// result does not carry them itself.
+import type { EngineWarning } from "~/engine";
+
+/** The fields of a search result this view reads (a search result has more). */
+export type SearchResultIn = {
+  id: string;
+  rank: number;
+  label: string;
+  method: "direct" | "trim" | "speed";
+  ratio: number;
+  speed: number | null;
+  diameter: number | null;
+  headAtDuty: number;
+  efficiency: number | null;
+  bepRatio: number | null;
+  inPor: boolean | null;
+  npshr: number | null;
+  npshMargin: number | null;
+  shaftPower: number | null;
+  score: number;
+  reason: string;
+  warnings: EngineWarning[];
+  curveSetId: number;
+  model: string;
+  type: string;
+  size: string;
+  setSpeed: number | null;
+  setDiameter: number | null;
+};
+
+export type SearchResultView = {
+  rank: number;
+  modelId: number | null;
+  curveSetId: number;
+  label: string;
+  model: string;
+  type: string;
+  size: string;
+  library: string | null;
+  /** The published curve searched: speed, rpm; impeller diameter, m. */
+  curve: { speed: number | null; impellerDiameter: number | null };
+  /** How the curve meets the duty: none (as published), speed (affinity laws) or trim (approximate). */
+  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null };
+  /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
+  verdict: unknown;
+  figures: {
+    headAtDuty: number;
+    efficiency: number | null;
+    shaftPower: number | null;
+    npshRequired: number | null;
+    npshMargin: number | null;
+    bepRatio: number | null;
+    inPor: boolean | null;
+    score: number;
+  };
+  reason: string;
+  warnings: string[];
+};
+
+const KIND = { direct: "none", trim: "trim", speed: "speed" } as const;
+
+export function searchResultView(r: SearchResultIn, meta?: { modelId: number; library: string }): SearchResultView {
+  const extra = r as SearchResultIn & { modelId?: number; library?: string | { name?: string }; verdict?: unknown };
+  const library = typeof extra.library === "string" ? extra.library : extra.library?.name ?? meta?.library ?? null;
+  return {
+    rank: r.rank,
+    modelId: extra.modelId ?? meta?.modelId ?? null,
+    curveSetId: r.curveSetId,
+    label: r.label,
+    model: r.model,
+    type: r.type,
+    size: r.size,
+    library,
+    curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
+    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter },
+    verdict: extra.verdict ?? null,
+    figures: {
+      headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,
+      npshMargin: r.npshMargin, bepRatio: r.bepRatio, inPor: r.inPor, score: r.score,
+    },
+    reason: r.reason,
+    warnings: r.warnings.map((w) => w.message),
+  };
+}

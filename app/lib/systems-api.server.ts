@@ -1,0 +1,40 @@
+// Read API for systems: the workbench view (as the live preview) and the duty-point search, for
+// GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
+// services it calls (getSystem → 404 for another workspace's system).
+import { curvesOfRevisions, searchableRevisions, type Viewer } from "./libraries.server";
+import { searchForSystem, systemWorkbench, type SearchFilters } from "./projects.server";
+import { workbenchView } from "./workbench-view";
+import { searchResultView, type SearchResultIn } from "./search-view";
+
+export const SI_UNITS = { flow: "m3/s", head: "m", pressure: "Pa", power: "W", diameter: "m", length: "m", speed: "rpm", efficiency: "fraction" } as const;
+
+/** { system, input, evaluation, candidates } — the same view as POST …/preview, from the stored inputs. */
+export async function systemReadView(viewer: Viewer, systemId: number) {
+  const bench = await systemWorkbench(viewer, systemId);
+  const view = workbenchView(bench);
+  return {
+    units: SI_UNITS,
+    system: { id: bench.system.id, name: bench.system.name, projectId: bench.system.projectId, projectName: bench.system.projectName },
+    input: bench.system.input,
+    ...view,
+  };
+}
+
+/** { system, duty, results } — the duty-point search against the stored duty, one row per result. */
+export async function systemSearchView(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
+  const res = await searchForSystem(viewer, systemId, filters);
+  // Model id and library of each curve set (cached revisions); used when a result does not carry them.
+  const meta = new Map<number, { modelId: number; library: string }>();
+  if (res.results.length) {
+    const { open } = await searchableRevisions(viewer);
+    for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) meta.set(s.id, { modelId: s.modelId, library: o.name });
+  }
+  return {
+    units: SI_UNITS,
+    system: { id: res.system.id, name: res.system.name, projectId: res.system.projectId, projectName: res.system.projectName },
+    duty: res.system.input.duty,
+    message: res.message,
+    stats: res.stats,
+    results: res.results.map((r) => searchResultView(r as SearchResultIn, meta.get(r.curveSetId))),
+  };
+}

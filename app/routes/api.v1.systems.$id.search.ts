@@ -1,0 +1,31 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.systems.$id.search";
+import { requireApi } from "~/lib/guards.server";
+import { badRequest, problem } from "~/lib/problem.server";
+import { asProblem } from "~/lib/api-errors.server";
+import { IdField } from "~/lib/forms.server";
+import { systemSearchView } from "~/lib/systems-api.server";
+
+const METHODS = ["direct", "trim", "speed"] as const;
+
+// GET /api/v1/systems/:id/search[?method=direct&method=trim&method=speed] — pumps that meet the
+// system's stored duty, ranked: { results: [...] }. SI units throughout.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const c = await requireApi(request, "project.read");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("System id must be a number.");
+  const methods = new URL(request.url).searchParams.getAll("method");
+  const bad = methods.find((m) => !(METHODS as readonly string[]).includes(m));
+  if (bad !== undefined) return badRequest(`Unknown method "${bad.slice(0, 40)}": use direct, trim or speed.`);
+  try {
+    const view = await systemSearchView({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output,
+      { methods: methods.length ? (methods as (typeof METHODS)[number][]) : undefined });
+    return Response.json(view);
+  } catch (e) {
+    return asProblem(e);
+  }
+}
+
+export function action() {
+  return problem({ title: "Method Not Allowed", status: 405, detail: "Use GET." }, { Allow: "GET" });
+}

@@ -1,0 +1,24 @@
+import * as v from "valibot";
+import type { Route } from "./+types/api.v1.systems.$id";
+import { requireApi } from "~/lib/guards.server";
+import { badRequest, problem } from "~/lib/problem.server";
+import { asProblem } from "~/lib/api-errors.server";
+import { IdField } from "~/lib/forms.server";
+import { systemReadView } from "~/lib/systems-api.server";
+
+// GET /api/v1/systems/:id — the stored system evaluated with its candidates: { input, evaluation, candidates }
+// (the same view as POST …/preview). SI units throughout.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const c = await requireApi(request, "project.read");
+  const id = v.safeParse(IdField, params.id);
+  if (!id.success) return badRequest("System id must be a number.");
+  try {
+    return Response.json(await systemReadView({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output));
+  } catch (e) {
+    return asProblem(e);
+  }
+}
+
+export function action() {
+  return problem({ title: "Method Not Allowed", status: 405, detail: "Use GET." }, { Allow: "GET" });
+}

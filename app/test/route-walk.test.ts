@@ -1,0 +1,219 @@
+// Every route in app/routes.ts, walked with bad input: generated bad ids in every path parameter, bad
+// query strings (every key any route reads, each with odd values), and malformed urlencoded,
+// multipart and JSON bodies — anonymous, signed in (admin) and with an API token. No answer may be a
+// 5xx or an uncaught error. Real route modules, real guards, real MariaDB (app/test/harness.ts).
+//
+// A route in app/routes.ts whose path parameters have no good value in GOOD_PARAMS below fails the
+// first test, so a new route cannot be added without being walked.
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { fieldCheckPhotos, libraries } from "@db/schema";
+import routeConfig from "~/routes";
+import { createApiToken, invite } from "~/lib/accounts.server";
+import { analyseStored, createLibrary, curvesOfRevisions, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
+import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
+import { recordFieldCheck, shareProject } from "~/lib/fieldchecks.server";
+import { parseCheckFields } from "~/lib/fieldcheck-form";
+import { fieldsForHead } from "./fieldcheck-fixture";
+import { BASE, call, makeMember, type TestMember } from "./harness";
+
+type Entry = { id?: string; path?: string; file: string; index?: boolean; children?: Entry[] };
+type Mod = { loader?: unknown; action?: unknown };
+const modules = import.meta.glob<Mod>("../routes/*.{ts,tsx}");
+
+function flatten(entries: Entry[], parent = ""): { id: string; path: string; file: string }[] {
+  return entries.flatMap((e) => {
+    const path = e.index ? parent : [parent, e.path ?? ""].filter(Boolean).join("/");
+    const here = { id: e.id ?? e.file.replace(/\.(tsx?|jsx?)$/, ""), path, file: e.file };
+    return [here, ...flatten(e.children ?? [], path)];
+  });
+}
+const ROUTES = flatten(routeConfig as Entry[]);
+const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]).concat(path.endsWith("*") ? ["*"] : []);
+
+type Ctx = { m: TestMember; token: string; lib: number; upload: number; project: number; system: number; selection: number; check: number; photo: number; invite: string };
+let ctx: Ctx;
+
+/** Good values for every path parameter of every route (so bodies and queries reach past the id lookup). */
+const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
+  "libraries/:id": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/upload": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/uploads/:uploadId": (c) => ({ id: String(c.lib), uploadId: String(c.upload) }),
+  "libraries/:id/export.csv": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/export.json": (c) => ({ id: String(c.lib) }),
+  "projects/:id": (c) => ({ id: String(c.project) }),
+  "projects/:id/share": (c) => ({ id: String(c.project) }),
+  "systems/:id": (c) => ({ id: String(c.system) }),
+  "systems/:id/search": (c) => ({ id: String(c.system) }),
+  "selections/:id": (c) => ({ id: String(c.selection) }),
+  "selections/:id/export.csv": (c) => ({ id: String(c.selection) }),
+  "selections/:id/export.json": (c) => ({ id: String(c.selection) }),
+  "field/selections/:id": (c) => ({ id: String(c.selection) }),
+  "field/selections/:id/photos": (c) => ({ id: String(c.selection) }),
+  "field/selections/:id/export.csv": (c) => ({ id: String(c.selection) }),
+  "field/checks/:id": (c) => ({ id: String(c.check) }),
+  "field/checks/:id/photos/:photoId": (c) => ({ id: String(c.check), photoId: String(c.photo) }),
+  "invite/:token": (c) => ({ token: c.invite }),
+  "api/v1/libraries/:id/curves": (c) => ({ id: String(c.lib) }),
+  "api/v1/libraries/:id/models": (c) => ({ id: String(c.lib) }),
+  "api/v1/libraries/:id/upload": (c) => ({ id: String(c.lib) }),
+  "api/v1/models/:id": () => ({ id: "1" }),
+  "api/v1/systems/:id/preview": (c) => ({ id: String(c.system) }),
+  "api/*": () => ({ "*": "nothing/here" }),
+  "*": () => ({ "*": "nothing/here" }),
+};
+
+const BAD_IDS = ["abc", "-1", "1.5", "1e3", "\u0000", "%00", "99999999999999999999", "0x10", " 1", "", "1/2", "9".repeat(16), "0"];
+const BAD_VALUES = ["%0a", "\n", "\u0000", "-1", "1e309", "NaN", "Infinity", "abc", "1.5", "//evil.example", "/\t/evil.example", "x".repeat(5000), "%zz", "9".repeat(25), "/%0a", "/%0d%0aSet-Cookie:%20x=1", "/\\evil.example", "/ x"];
+
+/** Every query-string key any route module reads (searchParams.get / getAll, and the q()/qp() helpers). */
+function queryKeys(): string[] {
+  const keys = new Set<string>(["next", "id", "page"]);
+  for (const r of ROUTES) {
+    const src = readFileSync(`app/${r.file}`, "utf8");
+    for (const m of src.matchAll(/(?:searchParams\.(?:get|getAll)|params\.get|\bqp?|readQuery\(\w+,)\s*\(?\s*"([\w.-]+)"/g)) keys.add(m[1]);
+  }
+  return [...keys];
+}
+
+const BODIES: { name: string; headers: Record<string, string>; body: () => BodyInit }[] = [
+  { name: "malformed multipart", headers: { "content-type": "multipart/form-data; boundary=XyZ" }, body: () => "--XyZ\r\nContent-Disposition: form-data; name=\"a\"\r\n\r\nbroken without end" },
+  { name: "multipart without boundary", headers: { "content-type": "multipart/form-data" }, body: () => "a=1" },
+  { name: "malformed JSON", headers: { "content-type": "application/json" }, body: () => '{"input": {' },
+  { name: "JSON of the wrong shape", headers: { "content-type": "application/json" }, body: () => '[1, "x", null]' },
+  { name: "urlencoded with bad escapes and odd ids", headers: { "content-type": "application/x-www-form-urlencoded" }, body: () => "intent=%zz&id=%00&candidateId=1e3&curveSetId=-1&tokenId=abc&membershipId=1.5&shareId=99999999999999999999&sessionId=%0a&base=%7B&mapping=%5B&next=/%0a&email=%00&password=x&token=%0a" },
+  { name: "no content type", headers: {}, body: () => "\u0000\u0001garbage" },
+  { name: "binary as text/plain", headers: { "content-type": "text/plain" }, body: () => new Uint8Array([0xff, 0xfe, 0, 1, 2]) },
+];
+
+beforeAll(async () => {
+  process.env.STRIPE_WEBHOOK_SECRET ||= "whsec_route_walk"; // configured as in production: bad bodies are a 400, not "not set up"
+  const m = await makeMember("admin");
+  const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
+  const lib = await createLibrary(viewer, { name: `Walk ${Date.now()}`, description: "" });
+  const csv = readFileSync("fixtures/csv/long-si.csv", "utf8");
+  const upload = await storeUpload(viewer, lib, new File([csv], "w.csv", { type: "text/csv" }));
+  const { text, lib: l } = await getUpload(viewer, lib, upload);
+  await importUpload(viewer, lib, upload, analyseStored(text, l).mapping);
+  const project = await createProject(viewer, { name: "Walk project", site: "", description: "" });
+  const system = await createSystem(viewer, project, "Walk system", { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
+  const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
+  const sets = await curvesOfRevisions([rev.id!]);
+  const added = await addCandidate(viewer, system, sets[0].id, DEFAULT_ADJUSTMENT);
+  if (!added.ok) throw new Error(added.reason);
+  const selection = await selectCandidate(viewer, added.id, "Walk selection", "");
+  const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0]);
+  const parsed = parseCheckFields(fieldsForHead(25, 998.2, { flow: String(20 / 3600) }));
+  if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
+  const rd = parsed.readings;
+  const rec = await recordFieldCheck(viewer, selection, { readings: rd, fields: {}, notes: "", gradeId: "2B" }, [{ filename: "g.png", contentType: "image/png", bytes: Buffer.from(png) }], { notify: false });
+  const [photo] = await db().select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, rec.id));
+  const other = await makeMember("admin");
+  await shareProject(viewer, project, String(other.workspaceId)).catch(() => null);
+  const inv = await invite({ workspaceId: m.workspaceId, workspaceName: "W", inviterId: m.userId, inviterName: "W", email: `walk-${Date.now()}@example.test`, role: "viewer" });
+  const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "walk", scope: "write" });
+  ctx = { m, token, lib, upload, project, system, selection, check: rec.id, photo: photo.id, invite: inv };
+}, 60_000);
+afterAll(() => closeDb());
+
+type Failure = string;
+const AS = (c: Ctx) => [
+  { who: "anonymous", headers: {} as Record<string, string>, cookie: undefined as string | undefined },
+  { who: "member", headers: {}, cookie: c.m.cookie },
+  { who: "token", headers: { authorization: `Bearer ${c.token}` }, cookie: undefined },
+];
+
+function pathFor(route: string, params: Record<string, string>): string {
+  return "/" + route.replace(/:(\w+)/g, (_, k) => encodeURIComponent(params[k] ?? "")).replace(/\*$/, params["*"] ?? "");
+}
+
+async function probe(fails: Failure[], label: string, fn: unknown, opts: Parameters<typeof call>[1]) {
+  try {
+    const r = await call(fn as never, opts);
+    if (r.status >= 500) fails.push(`${label} → ${r.status} ${JSON.stringify(r.body).slice(0, 160)}`);
+  } catch (e) {
+    fails.push(`${label} → threw ${(e as Error)?.stack?.split("\n").slice(0, 3).join(" | ") ?? String(e)}`);
+  }
+}
+
+async function load(file: string): Promise<Mod> {
+  const key = `../${file}`;
+  const loader = modules[key];
+  if (!loader) throw new Error(`route module ${file} not found by the walk`);
+  return loader();
+}
+
+test("every route in app/routes.ts has good parameter values here (a new route must be added to the walk)", () => {
+  expect(ROUTES.length).toBeGreaterThan(40);
+  const missing = ROUTES.filter((r) => paramsOf(r.path).length && !GOOD_PARAMS[r.path]).map((r) => r.path);
+  expect(missing).toEqual([]);
+  const stale = Object.keys(GOOD_PARAMS).filter((p) => !ROUTES.some((r) => r.path === p));
+  expect(stale).toEqual([]);
+});
+
+test("bad ids in every path parameter: no 5xx from any loader or action", async () => {
+  const fails: Failure[] = [];
+  for (const r of ROUTES) {
+    const names = paramsOf(r.path).filter((p) => p !== "*" );
+    if (!names.length) continue;
+    const mod = await load(r.file);
+    const good = GOOD_PARAMS[r.path](ctx);
+    for (const name of names) {
+      for (const bad of BAD_IDS) {
+        const params = { ...good, [name]: bad };
+        for (const as of AS(ctx)) {
+          const base = { path: pathFor(r.path, params), params, cookie: as.cookie, headers: as.headers };
+          if (mod.loader) await probe(fails, `GET ${r.path} ${name}=${JSON.stringify(bad)} as ${as.who}`, mod.loader, base);
+          if (mod.action) await probe(fails, `POST ${r.path} ${name}=${JSON.stringify(bad)} as ${as.who}`, mod.action, { ...base, headers: { ...as.headers, origin: BASE }, form: { intent: "x" } });
+        }
+      }
+    }
+  }
+  if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+  expect(fails).toEqual([]);
+}, 300_000);
+
+test("bad query strings on every loader: no 5xx", async () => {
+  const fails: Failure[] = [];
+  const keys = queryKeys();
+  expect(keys).toEqual(expect.arrayContaining(["next", "revision", "model", "amend"]));
+  for (const r of ROUTES) {
+    const mod = await load(r.file);
+    if (!mod.loader) continue;
+    const params = GOOD_PARAMS[r.path]?.(ctx) ?? {};
+    for (const bad of BAD_VALUES) {
+      const qs = keys.map((k) => `${k}=${bad.startsWith("%") ? bad : encodeURIComponent(bad)}`).join("&");
+      for (const as of AS(ctx)) {
+        await probe(fails, `GET ${r.path}?…=${JSON.stringify(bad.slice(0, 20))} as ${as.who}`, mod.loader, { path: `${pathFor(r.path, params)}?${qs}`, params, cookie: as.cookie, headers: as.headers });
+      }
+    }
+  }
+  if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+  expect(fails).toEqual([]);
+}, 300_000);
+
+test("malformed urlencoded, multipart and JSON bodies on every action: no 5xx", async () => {
+  const fails: Failure[] = [];
+  for (const r of ROUTES) {
+    const mod = await load(r.file);
+    if (!mod.action) continue;
+    const params = GOOD_PARAMS[r.path]?.(ctx) ?? {};
+    for (const b of BODIES) {
+      for (const as of AS(ctx)) {
+        await probe(fails, `POST ${r.path} (${b.name}) as ${as.who}`, mod.action, {
+          path: pathFor(r.path, params),
+          method: "POST",
+          params,
+          cookie: as.cookie,
+          headers: { ...as.headers, ...b.headers, origin: BASE },
+          body: b.body(),
+        });
+      }
+    }
+  }
+  if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+  expect(fails).toEqual([]);
+}, 300_000);

@@ -1,0 +1,158 @@
+// The production server (app/serve.mjs on the build) as a client sees it: a nonce CSP through helmet,
+// form-action and HSTS, Cache-Control on personal responses, and body limits counted on the bytes
+// read — chunked bodies included (issue 14). Runs the built app as its own process, like faults.test.ts.
+import http from "node:http";
+import net from "node:net";
+import { spawn, type ChildProcess } from "node:child_process";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import { createApiToken } from "~/lib/accounts.server";
+import { makeMember } from "./harness";
+
+const ROOT = path.resolve(__dirname, "../..");
+const built = existsSync(path.join(ROOT, "build/server/index.js"));
+
+const freePort = () =>
+  new Promise<number>((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
+
+let app: ChildProcess | null = null;
+let base = "";
+let port = 0;
+let cookie = "";
+let token = "";
+
+beforeAll(async () => {
+  if (!built) return;
+  const m = await makeMember("admin");
+  cookie = m.cookie;
+  token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "srv", scope: "read" })).token;
+  port = await freePort();
+  base = `http://127.0.0.1:${port}`;
+  app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+    cwd: ROOT,
+    // APP_URL behind https (a proxy in front): HSTS must be on. Requests here come over plain http.
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "" },
+    stdio: "ignore",
+  });
+  const until = Date.now() + 20_000;
+  while (Date.now() < until) {
+    if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error("the app did not start");
+}, 30_000);
+afterAll(() => {
+  app?.kill("SIGTERM");
+  return closeDb();
+});
+
+/** Sends `total` bytes in 64 KB chunks (Transfer-Encoding: chunked unless `declare`), stopping at the first answer. */
+function send(pathname: string, total: number, opts: { declare?: boolean; headers?: Record<string, string> } = {}) {
+  return new Promise<{ status: number; body: string; sent: number; type: string | undefined }>((resolve, reject) => {
+    let sent = 0;
+    let answered = false;
+    const headers: Record<string, string> = { "content-type": "application/x-www-form-urlencoded", origin: base, ...opts.headers };
+    if (opts.declare) headers["content-length"] = String(total);
+    const req = http.request({ host: "127.0.0.1", port, path: pathname, method: "POST", headers }, (res) => {
+      answered = true;
+      let body = "";
+      res.on("data", (b) => (body += b));
+      res.on("end", () => resolve({ status: res.statusCode ?? 0, body, sent, type: res.headers["content-type"] }));
+      res.on("error", () => resolve({ status: res.statusCode ?? 0, body, sent, type: res.headers["content-type"] }));
+    });
+    req.on("error", (e) => (answered ? undefined : reject(e)));
+    const chunk = Buffer.alloc(64 * 1024, "a");
+    const pump = () => {
+      while (!answered && sent < total) {
+        const piece = chunk.subarray(0, Math.min(chunk.length, total - sent));
+        sent += piece.length;
+        if (!req.write(piece)) return void req.once("drain", pump);
+      }
+      if (!answered) req.end();
+    };
+    pump();
+  });
+}
+
+describe.skipIf(!built)("headers", () => {
+  test("a nonce CSP: script-src has a fresh nonce per response and no 'unsafe-inline'; every script tag carries it", async () => {
+    const a = await fetch(`${base}/signin`);
+    const b = await fetch(`${base}/signin`);
+    const csp = a.headers.get("content-security-policy")!;
+    const scriptSrc = csp.split(";").find((d) => d.trim().startsWith("script-src"))!;
+    expect(scriptSrc).not.toContain("unsafe-inline");
+    const nonce = /'nonce-([^']+)'/.exec(scriptSrc)![1];
+    expect(nonce.length).toBeGreaterThanOrEqual(16);
+    expect(b.headers.get("content-security-policy")).not.toContain(nonce);
+    const html = await a.text();
+    const scripts = [...html.matchAll(/<script\b[^>]*>/g)].map((m) => m[0]);
+    expect(scripts.length).toBeGreaterThan(0);
+    for (const s of scripts) expect(s).toContain(`nonce="${nonce}"`);
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("default-src 'self'");
+  });
+
+  test("a client cannot choose the nonce", async () => {
+    const r = await fetch(`${base}/signin`, { headers: { "x-dutymark-csp-nonce": "AAAAAAAAAAAAAAAAAAAAAAAA" } });
+    expect(await r.text()).not.toContain('nonce="AAAAAAAAAAAAAAAAAAAAAAAA"');
+  });
+
+  test("form-action: our origin and the Stripe checkout only (no local ports); HSTS when APP_URL is https", async () => {
+    const r = await fetch(`${base}/`);
+    const formAction = r.headers.get("content-security-policy")!.split(";").find((d) => d.trim().startsWith("form-action"))!.trim();
+    expect(formAction).toBe("form-action 'self' https://dutymark.example https://checkout.stripe.com https://billing.stripe.com");
+    expect(r.headers.get("strict-transport-security")).toMatch(/max-age=31536000/);
+    expect(r.headers.get("x-powered-by")).toBeNull();
+    expect(r.headers.get("x-frame-options")).toBe("DENY");
+  });
+
+  test("Cache-Control: private, no-store on signed-in pages, exports and the API; public pages stay cacheable", async () => {
+    expect((await fetch(`${base}/account`, { headers: { cookie } })).headers.get("cache-control")).toBe("private, no-store");
+    expect((await fetch(`${base}/libraries/1/export.csv`, { headers: { cookie } })).headers.get("cache-control")).toBe("private, no-store");
+    expect((await fetch(`${base}/api/v1/me`, { headers: { authorization: `Bearer ${token}` } })).headers.get("cache-control")).toBe("private, no-store");
+    const calc = await fetch(`${base}/api/v1/calc/pipe-loss`, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" });
+    expect(calc.headers.get("cache-control")).toMatch(/no-store/);
+    expect((await fetch(`${base}/signin`)).headers.get("cache-control")).not.toBe("private, no-store");
+  });
+});
+
+describe.skipIf(!built)("body limits on the bytes read", () => {
+  test("a chunked 3 MB POST to /signin is cut at 1 MB with 413 (no sign-in needed)", async () => {
+    const r = await send("/signin", 3 * 1024 * 1024);
+    expect(r.status).toBe(413);
+  }, 30_000);
+
+  test("a chunked 2 MB POST to /projects → 413; a declared 2 MB → 413 before reading", async () => {
+    expect((await send("/projects", 2 * 1024 * 1024, { headers: { cookie } })).status).toBe(413);
+    expect((await send("/projects", 2 * 1024 * 1024, { declare: true, headers: { cookie } })).status).toBe(413);
+  }, 30_000);
+
+  test("a chunked 1 MB POST to the Stripe webhook (limit 512 KB) → 413 problem+json", async () => {
+    const r = await send("/api/stripe/webhook", 1024 * 1024, { headers: { "content-type": "application/json", "stripe-signature": "t=1,v1=x" } });
+    expect(r.status).toBe(413);
+    expect(r.type).toBe("application/problem+json");
+  }, 30_000);
+
+  test("a small chunked POST still reaches the app (a wrong password is a 400, not a 413)", async () => {
+    const body = "email=nobody%40example.test&password=wrong";
+    const r = await new Promise<number>((resolve, reject) => {
+      const req = http.request({ host: "127.0.0.1", port, path: "/signin", method: "POST", headers: { "content-type": "application/x-www-form-urlencoded", origin: base } }, (res) => {
+        res.resume();
+        resolve(res.statusCode ?? 0);
+      });
+      req.on("error", reject);
+      req.write(body.slice(0, 10));
+      req.end(body.slice(10));
+    });
+    expect(r).toBe(400);
+  });
+});

@@ -1,0 +1,156 @@
+// Read API for systems against the real MariaDB: GET /api/v1/systems/:id (the live preview's view of
+// the stored system) and GET /api/v1/systems/:id/search (ranked results with adjustment and figures).
+// Check values: identities with the services the pages use (same numbers), the product's own rules
+// (workspace scoping, problem+json) and the affinity laws (speed = ratio × curve speed, common practice).
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import { createApiToken } from "~/lib/accounts.server";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries.server";
+import { addCandidate, createProject, createSystem, searchForSystem, systemWorkbench } from "~/lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/hydraulics";
+import { workbenchView } from "~/lib/workbench-view";
+import { searchResultView } from "~/lib/search-view";
+import { call, makeMember, type TestMember } from "./harness";
+import * as apiSystem from "~/routes/api.v1.systems.$id";
+import * as apiSearch from "~/routes/api.v1.systems.$id.search";
+
+afterAll(() => closeDb());
+
+let m: TestMember;
+let other: TestMember;
+let v: Viewer;
+let token = "";
+let otherToken = "";
+let systemId = 0;
+let noDutyId = 0;
+const LIB = "API systems pumps";
+const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 / 3600, head: 38 } });
+
+beforeAll(async () => {
+  m = await makeMember("admin");
+  other = await makeMember("admin");
+  v = { userId: m.userId, workspace: { id: m.workspaceId, name: "A", slug: "a", plan: "free" }, role: "admin" };
+  const libId = await createLibrary(v, { name: LIB, description: "" });
+  const text = readFileSync("fixtures/demo/tallowmere.csv", "utf8"); // invented demo curves (fixtures/demo)
+  const uploadId = await storeUpload(v, libId, new File([text], "t.csv", { type: "text/csv" }));
+  const u = await getUpload(v, libId, uploadId);
+  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+  await updateLibrary(v, libId, { name: LIB, description: "", visibility: "workspace" });
+  const p = await createProject(v, { name: "API", site: "", description: "" });
+  systemId = await createSystem(v, p, "Booster", booster());
+  noDutyId = await createSystem(v, p, "No duty", { ...defaultSystemInput(), duty: null } as SystemInput);
+  const found = await searchForSystem(v, systemId);
+  const added = await addCandidate(v, systemId, found.results[0].curveSetId, { ...DEFAULT_ADJUSTMENT, method: "speed" });
+  if (!added.ok) throw new Error(added.reason);
+  token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "r", scope: "read" })).token;
+  otherToken = (await createApiToken({ userId: other.userId, workspaceId: other.workspaceId, name: "r", scope: "read" })).token;
+});
+
+const get = (fn: unknown, path: string, id: string, t = token) =>
+  call(fn as never, { path, params: { id }, headers: { authorization: `Bearer ${t}` } });
+
+describe("GET /api/v1/systems/:id", () => {
+  test("input, evaluation and candidates: the workbench's own numbers (same view as the preview)", async () => {
+    const r = await get(apiSystem.loader, `/api/v1/systems/${systemId}`, String(systemId));
+    expect(r.status).toBe(200);
+    const body = r.body as ReturnType<typeof workbenchView> & { input: SystemInput; system: { id: number; name: string } };
+    expect(body.system).toMatchObject({ id: systemId, name: "Booster" });
+    expect(body.input.duty).toEqual({ flow: 40 / 3600, head: 38 });
+    const expected = JSON.parse(JSON.stringify(workbenchView(await systemWorkbench(v, systemId))));
+    expect(body.evaluation).toEqual(expected.evaluation);
+    expect(body.candidates).toEqual(expected.candidates);
+    expect(body.candidates).toHaveLength(1);
+    const c = body.candidates[0];
+    expect(c.library).toBe(LIB);
+    // Speed solved so the demanding edge of the system band delivers the duty flow (our rule since the band verdict).
+    const band = (c.result as { band?: { flow: number | null }[] }).band ?? [];
+    expect(Math.min(...band.map((b) => b.flow ?? Infinity))).toBeCloseTo(40 / 3600, 6);
+    // Each candidate carries the engine's verdict (issue 13: meets/short/oversized/outside-catalogue/no-operating-point).
+    expect(c.result).toEqual(expected.candidates[0].result);
+    const verdict = (c.result as { verdict?: { status: string; rule: string; reasons: string[] } }).verdict;
+    expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain(verdict?.status);
+    expect(verdict!.rule.length).toBeGreaterThan(0);
+  });
+
+  test("bad id → 400, unknown id → 404, another workspace's token → 404; all problem+json; POST → 405", async () => {
+    const bad = await get(apiSystem.loader, "/api/v1/systems/abc", "abc");
+    expect(bad.status).toBe(400);
+    expect(bad.headers.get("content-type")).toBe("application/problem+json");
+    const missing = await get(apiSystem.loader, "/api/v1/systems/999999999", "999999999");
+    expect(missing.status).toBe(404);
+    expect(missing.headers.get("content-type")).toBe("application/problem+json");
+    const foreign = await get(apiSystem.loader, `/api/v1/systems/${systemId}`, String(systemId), otherToken);
+    expect(foreign.status).toBe(404);
+    expect(foreign.headers.get("content-type")).toBe("application/problem+json");
+    expect(JSON.stringify(foreign.body)).not.toContain("Booster");
+    const noToken = await call(apiSystem.loader as never, { path: `/api/v1/systems/${systemId}`, params: { id: String(systemId) } });
+    expect(noToken.status).toBe(401);
+    const post = await call(apiSystem.action as never, { path: `/api/v1/systems/${systemId}`, params: { id: String(systemId) }, method: "POST", headers: { authorization: `Bearer ${token}` } });
+    expect(post.status).toBe(405);
+  });
+});
+
+describe("GET /api/v1/systems/:id/search", () => {
+  test("results with modelId, curveSetId, label, library, adjustment, verdict and figures; the same ranking as the search page", async () => {
+    const r = await get(apiSearch.loader, `/api/v1/systems/${systemId}/search`, String(systemId));
+    expect(r.status).toBe(200);
+    const body = r.body as { results: ReturnType<typeof searchResultView>[]; duty: unknown };
+    const page = await searchForSystem(v, systemId);
+    expect(body.results.map((x) => x.curveSetId)).toEqual(page.results.map((x) => x.curveSetId));
+    expect(body.results.length).toBeGreaterThan(0);
+    for (const [i, x] of body.results.entries()) {
+      const p = page.results[i];
+      expect(x).toMatchObject({ rank: p.rank, curveSetId: p.curveSetId, label: p.label, library: LIB });
+      expect(typeof x.modelId).toBe("number");
+      expect(["none", "speed", "trim"]).toContain(x.adjustment.kind);
+      expect(x.adjustment.kind).toBe(p.method === "direct" ? "none" : p.method);
+      expect(x.adjustment.ratio).toBe(p.ratio);
+      if (x.adjustment.kind === "speed" && x.curve.speed !== null) expect(x.adjustment.speed!).toBeCloseTo(x.curve.speed * x.adjustment.ratio, 6); // affinity laws
+      if (x.adjustment.kind === "trim" && x.curve.impellerDiameter !== null) expect(x.adjustment.diameter!).toBeCloseTo(x.curve.impellerDiameter * x.adjustment.ratio, 9);
+      if (x.adjustment.kind === "none") expect(x.adjustment.ratio).toBe(1);
+      expect(x.figures.headAtDuty).toBeGreaterThanOrEqual(38 * 0.999); // meets the duty head (search rule)
+      expect(x.figures.efficiency).toBe(p.efficiency);
+      const pv = (p as { verdict?: unknown }).verdict;
+      expect(pv).toBeDefined();
+      expect(x.verdict).toEqual(JSON.parse(JSON.stringify(pv)));
+      expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain((x.verdict as { status: string }).status);
+    }
+  });
+
+  test("method filter; an unknown method → 400; a system without duty → no results and a message", async () => {
+    const speedOnly = await get(apiSearch.loader, `/api/v1/systems/${systemId}/search?method=speed`, String(systemId));
+    expect(speedOnly.status).toBe(200);
+    const rs = (speedOnly.body as { results: { adjustment: { kind: string } }[] }).results;
+    expect(rs.length).toBeGreaterThan(0);
+    expect(rs.every((x) => x.adjustment.kind === "speed")).toBe(true);
+    const bad = await get(apiSearch.loader, `/api/v1/systems/${systemId}/search?method=Direct`, String(systemId));
+    expect(bad.status).toBe(400);
+    expect(bad.headers.get("content-type")).toBe("application/problem+json");
+    const none = await get(apiSearch.loader, `/api/v1/systems/${noDutyId}/search`, String(noDutyId));
+    expect(none.status).toBe(200);
+    expect(none.body).toMatchObject({ results: [], message: expect.stringContaining("duty") });
+  });
+
+  test("bad id → 400, another workspace's token → 404 (problem+json), never 500", async () => {
+    expect((await get(apiSearch.loader, "/api/v1/systems/-1/search", "-1")).status).toBe(400);
+    const foreign = await get(apiSearch.loader, `/api/v1/systems/${systemId}/search`, String(systemId), otherToken);
+    expect(foreign.status).toBe(404);
+    expect(foreign.headers.get("content-type")).toBe("application/problem+json");
+  });
+});
+
+describe("searchResultView (pure)", () => {
+  const base = {
+    id: "7", rank: 1, label: "X", method: "trim" as const, ratio: 0.9, speed: 2900, diameter: 0.171, headAtDuty: 30, efficiency: 0.7,
+    bepRatio: 1, inPor: true, npshr: 2, npshMargin: 3, shaftPower: 5000, score: 0.6, reason: "r", warnings: [{ code: "w", message: "trim approx" }],
+    curveSetId: 7, model: "X", type: "inline", size: "DN50", setSpeed: 2900, setDiameter: 0.19,
+  };
+  test("maps method → adjustment.kind and passes a verdict through when the result has one, else null", () => {
+    expect(searchResultView(base, { modelId: 3, library: "L" })).toMatchObject({ modelId: 3, library: "L", verdict: null,
+      adjustment: { kind: "trim", ratio: 0.9, speed: 2900, diameter: 0.171 }, warnings: ["trim approx"] });
+    const verdict = { status: "meets", rule: "r", reasons: ["x"] };
+    expect(searchResultView({ ...base, method: "direct", ratio: 1, verdict, library: "Own", modelId: 9 } as never).adjustment.kind).toBe("none");
+    expect(searchResultView({ ...base, verdict, library: "Own", modelId: 9 } as never)).toMatchObject({ verdict, library: "Own", modelId: 9 });
+  });
+});

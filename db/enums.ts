@@ -1,0 +1,11 @@
+// The enumerations the schema's columns need (roles, visibilities, plans). The app reads them
+// through app/lib/constants.ts; the database layer imports nothing of the app.
+export const ROLES = ["admin", "engineer", "distributor", "contractor", "viewer"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const VISIBILITIES = ["private", "workspace", "shared"] as const;
+export type Visibility = (typeof VISIBILITIES)[number];
+
+/** Workspace plans: the free one, and the paid one that opens every shared library. */
+export const PLANS = ["free", "network"] as const;
+export type Plan = (typeof PLANS)[number];
