@@ -109,13 +109,37 @@ export function UploadDrop({ action }: { action: string }) {
           {items.map((it, i) => (
             <li key={i} className="flex items-center gap-2">
               <span className="w-56 truncate">{it.name}</span>
-              <progress max={1} value={it.progress} className="h-2 w-40" aria-label={`Upload of ${it.name}`} />
+              <UploadBar item={it} />
               {it.status === "done" && it.location ? <a href={it.location}>map and check</a> : null}
-              {it.status === "failed" ? <span className="text-fail">{it.message}</span> : null}
+              {it.status === "failed" ? (
+                <span className="text-fail" role="alert">
+                  Refused: {it.message}
+                </span>
+              ) : null}
             </li>
           ))}
         </ul>
       ) : null}
     </div>
+  );
+}
+
+/** The bar of one upload: brand colour while sending and when stored, red (full width) when refused. */
+function UploadBar({ item }: { item: Item }) {
+  const failed = item.status === "failed";
+  const pct = failed ? 100 : Math.round(item.progress * 100);
+  return (
+    <span
+      role="progressbar"
+      aria-label={`Upload of ${item.name}`}
+      aria-valuemin={0}
+      aria-valuemax={100}
+      aria-valuenow={pct}
+      aria-invalid={failed || undefined}
+      data-status={item.status}
+      className="inline-block h-2 w-40 overflow-hidden rounded bg-slate-200"
+    >
+      <span className={`block h-full ${failed ? "bg-fail" : "bg-brand-600"}`} style={{ width: `${pct}%` }} />
+    </span>
   );
 }

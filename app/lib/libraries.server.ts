@@ -6,10 +6,11 @@ import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
 import { db, withTransaction } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, selections, uploads, workspaces, type Visibility } from "@db/schema";
-import { analyseCsv, MappingSchema, type AnalyseResult, type Mapping } from "./import";
+import { bulkField, bulkLoad, bulkText } from "./bulk-load.server";
+import { analyseCsv, decodeBytes, looksBinary } from "./import";
+import { encodingOf } from "./upload-analysis";
 import { can, type Role } from "./permissions";
 import type { WorkspaceInfo } from "./guards.server";
-import * as v from "valibot";
 import { sweepPendingUploads } from "./uploads.server";
 import { toCsv } from "./csv";
 
@@ -140,24 +141,19 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
     throw new UploadRejected(`${file.name} is not a CSV file (expected .csv, .tsv or .txt).`);
   }
   const bytes = Buffer.from(await file.arrayBuffer());
-  decodeUtf8(bytes, file.name);
+  if (looksBinary(bytes)) throw new UploadRejected(`${file.name} looks like a binary file, not CSV text.`);
+  return insertUpload(viewer, lib.id, file.name, bytes);
+}
+
+/** Keeps bytes as an upload of the library with their SHA-256 (the caller checked the library and the bytes). */
+export async function insertUpload(viewer: Viewer, libraryId: number, filename: string, bytes: Buffer): Promise<number> {
   const sha256 = createHash("sha256").update(bytes).digest("hex");
   await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
   const [{ id }] = await db()
     .insert(uploads)
-    .values({ libraryId: lib.id, filename: file.name.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
+    .values({ libraryId, filename: filename.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
     .$returningId();
   return id;
-}
-
-function decodeUtf8(bytes: Uint8Array, name: string): string {
-  if (bytes.subarray(0, Math.min(bytes.length, 8192)).includes(0)) throw new UploadRejected(`${name} looks like a binary file, not CSV text.`);
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
-  } catch {
-    // Vendor exports from older tools are often Windows-1252; accept them rather than refuse.
-    return new TextDecoder("windows-1252").decode(bytes);
-  }
 }
 
 export async function getUpload(viewer: Viewer, libraryId: number, uploadId: number) {
@@ -167,37 +163,15 @@ export async function getUpload(viewer: Viewer, libraryId: number, uploadId: num
     .from(uploads)
     .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
   if (!u) throw data("No such upload in this library.", { status: 404 });
-  return { lib, upload: u, text: decodeUtf8(u.content, u.filename) };
+  const decoded = decodeBytes(u.content);
+  return { lib, upload: u, text: decoded.text, decoded };
 }
 
-/** The saved mapping of the library when it still fits the file's headers, else null. */
-export function savedMappingFor(lib: { mappingJson: string | null }, headers: string[]): Mapping | null {
-  if (!lib.mappingJson) return null;
-  try {
-    const m = v.parse(MappingSchema, JSON.parse(lib.mappingJson));
-    const norm = (h: string | undefined) => (h ?? "").trim().toLowerCase();
-    return m.columns.every((c) => norm(headers[c.index]) === norm(c.header)) ? m : null;
-  } catch {
-    return null;
-  }
-}
+// The analysis of a stored upload is pure and also runs in the mapping page's worker thread: it
+// lives in upload-analysis.ts; the server and scripts reach it from here as before.
+export { analyseStored, encodingOf, savedMappingFor, type StoredAnalysis } from "./upload-analysis";
 
-/** Analyses the stored upload on the server with the given mapping (or the saved one, or the suggestion). */
-export function analyseStored(text: string, lib: { mappingJson: string | null }, mapping?: unknown): AnalyseResult & { mappingSource: "form" | "saved" | "suggested" } {
-  if (mapping !== undefined) return { ...analyseCsv(text, mapping), mappingSource: "form" };
-  const first = analyseCsv(text);
-  const saved = savedMappingFor(lib, first.sniff.headers);
-  if (saved) {
-    try {
-      return { ...analyseCsv(text, saved), mappingSource: "saved" };
-    } catch {
-      /* fall through to the suggestion */
-    }
-  }
-  return { ...first, mappingSource: "suggested" };
-}
-
-const POINT_BATCH = 5000;
+const POINT_BATCH = 5000; // insertPoints (kept for the benchmark's comparison rows)
 
 /**
  * Imports the good curve sets of an upload as a new revision, in one transaction: all of it or
@@ -211,8 +185,8 @@ export async function importUpload(
   note = "",
   hooks: { beforeCommit?: () => Promise<void> } = {},
 ) {
-  const { lib, upload, text } = await getUpload(viewer, libraryId, uploadId);
-  const analysis = analyseCsv(text, mapping);
+  const { lib, upload } = await getUpload(viewer, libraryId, uploadId);
+  const analysis = analyseCsv(decodeBytes(upload.content, encodingOf(mapping)).text, mapping);
   // Re-check what is about to be written (finite SI values, ≥ 3 points, rising flow) — the same rules as
   // the import core's CurveSetSchema, written out because this runs over every point of big files.
   const good = analysis.result.curveSets.filter((c) => c.ok && writable(c));
@@ -242,52 +216,40 @@ export async function importUpload(
         createdBy: viewer.userId || null,
       })
       .$returningId();
-    // Models, then curve sets, as multi-row INSERTs; their ids are read back by revision (no
-    // reliance on consecutive auto-increment values, which Galera's interleaved mode does not give).
+    // Models, curve sets and points with LOAD DATA LOCAL INFILE from memory on this transaction's
+    // connection (bulk-load.server.ts); ids are read back by revision (no reliance on consecutive
+    // auto-increment values, which Galera's interleaved mode does not give).
     const modelRows = [...models].map(([name, sets]) => {
       const diameters = sets.map((x) => x.impellerDiameter).filter((d): d is number => d != null);
       const speeds = sets.map((x) => x.speed).filter((d): d is number => d != null);
-      return {
+      return [
         revisionId,
-        name: name.slice(0, 160),
-        type: (sets[0].type ?? "").slice(0, 80),
-        nominalSize: (sets[0].size ?? "").slice(0, 60),
-        ratedSpeed: speeds.length ? Math.max(...speeds) : null,
-        impellerMin: diameters.length ? Math.min(...diameters) : null,
-        impellerMax: diameters.length ? Math.max(...diameters) : null,
-        notes: (sets[0].notes ?? "").slice(0, 1000),
-      };
+        name.slice(0, 160),
+        (sets[0].type ?? "").slice(0, 80),
+        (sets[0].size ?? "").slice(0, 60),
+        speeds.length ? Math.max(...speeds) : null,
+        diameters.length ? Math.min(...diameters) : null,
+        diameters.length ? Math.max(...diameters) : null,
+        (sets[0].notes ?? "").slice(0, 1000),
+      ];
     });
-    for (let i = 0; i < modelRows.length; i += ROW_BATCH) await tx.insert(pumpModels).values(modelRows.slice(i, i + ROW_BATCH));
+    await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length, { keysCheckedByCaller: true });
     const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
-    const setRows = good.map((c, i) => {
+    const setRows = good.map((c) => {
       let lo = Infinity, hi = -Infinity;
       for (const p of c.points) {
         if (p.head < lo) lo = p.head;
         if (p.head > hi) hi = p.head;
       }
-      return {
-        modelId: modelIds.get(c.model.slice(0, 160))!,
-        revisionId,
-        speed: c.speed,
-        impellerDiameter: c.impellerDiameter,
-        flowMin: c.points[0].flow,
-        flowMax: c.points[c.points.length - 1].flow,
-        headMax: hi,
-        headMin: lo,
-        pointCount: c.points.length,
-        seq: i,
-      };
+      const modelId = modelIds.get(c.model.slice(0, 160));
+      if (modelId === undefined) throw new Error(`import: model ${c.model} was not written`);
+      return [modelId, revisionId, c.speed, c.impellerDiameter, c.points[0].flow, c.points[c.points.length - 1].flow, hi, lo, c.points.length];
     });
-    for (let i = 0; i < setRows.length; i += ROW_BATCH) {
-      await tx.insert(curveSets).values(setRows.slice(i, i + ROW_BATCH).map(({ seq: _seq, ...r }) => r));
-    }
+    await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], bulkText(setRows), setRows.length, { keysCheckedByCaller: true });
     // Curve sets come back in insertion order (ascending id within this revision).
     const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
     if (setIds.length !== good.length) throw new Error(`import: expected ${good.length} curve sets, found ${setIds.length}`);
-    const pointRows: (number | null)[][] = [];
-    good.forEach((c, i) => c.points.forEach((p, j) => pointRows.push([setIds[i], j, p.flow, p.head, p.efficiency ?? null, p.power ?? null, p.npshr ?? null])));
-    await insertPoints(conn, pointRows);
+    await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], () => pointsText(good, setIds), pointCount, { keysCheckedByCaller: true });
     await tx
       .update(libraries)
       .set({ currentRevisionId: revisionId, mappingJson: JSON.stringify(analysis.mapping) })
@@ -297,7 +259,27 @@ export async function importUpload(
   });
 }
 
-const ROW_BATCH = 1000;
+/**
+ * Curve points as LOAD DATA text, built straight from the curve sets (no per-point arrays), in
+ * pieces of ~500 curves: the stream hands each piece to the server while the next is formatted.
+ */
+function* pointsText(sets: { points: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number }[] }[], setIds: number[]): Generator<string> {
+  const opt = (x: number | undefined) => (x === undefined ? "\\N" : bulkField(x));
+  let s = "";
+  for (let i = 0; i < sets.length; i++) {
+    const id = String(setIds[i]);
+    const pts = sets[i].points;
+    for (let j = 0; j < pts.length; j++) {
+      const p = pts[j];
+      s += `${id}\t${j}\t${bulkField(p.flow)}\t${bulkField(p.head)}\t${opt(p.efficiency)}\t${opt(p.power)}\t${opt(p.npshr)}\n`;
+    }
+    if (i % 500 === 499) {
+      yield s;
+      s = "";
+    }
+  }
+  if (s) yield s;
+}
 
 const finiteOrAbsent = (x: number | undefined) => x === undefined || (Number.isFinite(x) && x >= 0);
 function writable(c: { model: string; points: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number }[] }): boolean {

@@ -6,8 +6,10 @@ import { badRequest, problem } from "~/lib/problem.server";
 import { asProblem } from "~/lib/api-errors.server";
 import { discardUpload } from "~/lib/uploads.server";
 import { IdField, readFormSafe } from "~/lib/forms.server";
+import { curveNameOfKey } from "~/lib/import";
 
-// POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1").
+// POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1";
+// optional policy = "skip-curves" (default) | "drop-points", which overrides the mapping's policy).
 // Without import=1: stores the file and returns the validation report (problems named by line and column,
 // the mapping used). With import=1: imports the good curves as a new revision and returns it.
 export async function action({ request, params }: Route.ActionArgs) {
@@ -31,16 +33,27 @@ export async function action({ request, params }: Route.ActionArgs) {
         return badRequest("The 'mapping' field is not JSON.", { errors: [{ field: "mapping", message: "not JSON" }] });
       }
     }
+    const policy = form.get("policy");
+    if (policy !== null && policy !== "skip-curves" && policy !== "drop-points")
+      return badRequest("The 'policy' field must be skip-curves or drop-points.", { errors: [{ field: "policy", message: "skip-curves or drop-points" }] });
     const uploadId = await storeUpload(viewer, id.output, file);
-    const { text, lib } = await getUpload(viewer, id.output, uploadId);
+    const { upload, lib } = await getUpload(viewer, id.output, uploadId);
     let analysis;
     try {
-      analysis = analyseStored(text, lib, mapping);
+      analysis = analyseStored(upload.content, lib, mapping);
+      if (policy && analysis.mapping.policy !== policy) analysis = analyseStored(upload.content, lib, { ...analysis.mapping, policy });
     } catch (e) {
       if (e instanceof v.ValiError) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).map((p: { key: unknown }) => String(p.key)).join(".")}`, message: i.message })) });
       throw e;
     }
-    const report = { uploadId, mapping: analysis.mapping, stats: analysis.result.stats, problems: analysis.result.problems };
+    const report = {
+      uploadId,
+      encoding: analysis.decoded.encoding,
+      title: analysis.title,
+      mapping: analysis.mapping,
+      stats: analysis.result.stats,
+      problems: analysis.result.problems.map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : null })),
+    };
     if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
     try {
       const revision = await importUpload(viewer, id.output, uploadId, analysis.mapping, String(form.get("note") ?? "API import"));

@@ -6,7 +6,12 @@ import { importUpload, UploadRejected } from "~/lib/libraries.server";
 import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
 import type { UploadSummary } from "~/lib/upload-analysis";
-import { blockLabel, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type Mapping, type NumericField } from "~/lib/import";
+import {
+  blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
+  type CellEdit, type Encoding, type Mapping, type NumericField,
+} from "~/lib/import";
+import { saveCorrectedUpload } from "~/lib/upload-fix.server";
+import { FixGrid } from "~/components/FixGrid";
 import { readId, readFormSafe } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
@@ -36,6 +41,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256 },
     unitSystem: c.m.user.unitSystem,
+    correctedFrom: Number(new URL(request.url).searchParams.get("from")) || null,
     ...(await analysis(c)),
   };
 }
@@ -63,17 +69,50 @@ function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } 
     return { ...c, field, unit, unitSource: changed ? "user" : c.unitSource, block: m.layout === "wide" ? c.block : null };
   });
   const model = String(form.get("defaultModel") ?? "").trim();
-  const speed = Number(form.get("defaultSpeed") ?? "");
-  m.defaults = { ...m.defaults, model: model || undefined, speed: Number.isFinite(speed) && speed > 0 ? speed : undefined };
+  const speed = Number(String(form.get("defaultSpeed") ?? "").replace(",", ".") || NaN);
+  const impeller = Number(String(form.get("defaultImpeller") ?? "").replace(",", ".") || NaN);
+  const fluid = String(form.get("fluid") ?? "").trim().slice(0, 120);
+  m.defaults = {
+    model: model || undefined,
+    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
+    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: "mm" as const } : {}),
+    fluid: fluid || undefined,
+  };
   m.fillDownModel = form.get("fillDownModel") === "on";
+  m.fillDownKeys = form.get("fillDownKeys") === "on";
+  const policy = form.get("policy");
+  m.policy = policy === "drop-points" ? "drop-points" : "skip-curves";
+  const encoding = String(form.get("encoding") ?? "");
+  if ((ENCODINGS as readonly string[]).includes(encoding)) m.encoding = encoding as Encoding;
   const check = v.safeParse(MappingSchema, m);
   if (!check.success) return { error: `This mapping cannot work: ${check.issues.map((i) => i.message).join("; ")}.` };
   return { mapping: check.output };
 }
 
+/** The grid's cells ("cell.<line>.<index>") as edits; the service keeps only those that differ from the file. */
+function editsFromForm(form: FormData): CellEdit[] {
+  const edits: CellEdit[] = [];
+  for (const [k, value] of form) {
+    const m = /^cell\.(\d{1,9})\.(\d{1,4})$/.exec(k);
+    if (m && typeof value === "string") edits.push({ line: Number(m[1]), index: Number(m[2]), value });
+  }
+  return edits;
+}
+
 export async function action({ request, params }: Route.ActionArgs) {
   const c = await context(request, params);
   const form = await readFormSafe(request);
+  if (form.get("intent") === "fix") {
+    const enc = String(form.get("encoding") ?? "");
+    try {
+      const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, editsFromForm(form), (ENCODINGS as readonly string[]).includes(enc) ? (enc as Encoding) : undefined);
+      if (id === null) return { error: "No cell was changed; nothing was saved." };
+      throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
+    } catch (e) {
+      if (e instanceof UploadRejected) return { error: e.message };
+      throw e;
+    }
+  }
   const { mapping, error } = mappingFromForm(form);
   if (!mapping) return { error };
   if (form.get("intent") === "import") {
@@ -103,6 +142,8 @@ const FIELD_LABEL: Record<string, string> = {
   ignore: "— ignore —",
 };
 
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
+
 export default function UploadPreview() {
   const l = useLoaderData<typeof loader>();
   const a = useActionData<typeof action>() as (Partial<UploadSummary> & { error?: string }) | undefined;
@@ -118,17 +159,49 @@ export default function UploadPreview() {
         <p className="text-xs text-slate-500">
           {fmtBytes(l.upload.size)} · SHA-256 {l.upload.sha256.slice(0, 16)}… · delimiter “{d.sniff.delimiter}” · decimal{" "}
           {d.sniff.decimalComma ? "comma" : "point"} · header on line {d.sniff.headerLine}
-          {d.sniff.hadBom ? " · UTF-8 BOM removed" : ""}
+          {d.sniff.hadBom ? " · byte-order mark removed" : ""}
         </p>
       </div>
       <FormError error={a?.error} />
+      {l.correctedFrom ? (
+        <Notice>
+          This is the corrected copy of upload {l.correctedFrom} (kept beside the original, which is unchanged). Checked again on the server below.
+        </Notice>
+      ) : null}
       {d.mappingSource === "saved" ? <Notice>Using the column mapping saved with this library from its last import.</Notice> : null}
+      {d.title.lines.length && (d.title.model || d.title.speed || d.title.impeller || d.title.fluid) ? (
+        <Notice>
+          <span data-testid="title-read">
+            Read from the title line{d.title.lines.length > 1 ? "s" : ""}:{" "}
+            {[
+              d.title.model ? `model ${d.title.model}` : "",
+              d.title.speed ? `speed ${d.title.speed} rpm` : "",
+              d.title.impeller ? `impeller Ø${d.title.impeller} ${d.title.impellerUnit}` : "",
+              d.title.fluid ? `fluid ${d.title.fluid}` : "",
+            ]
+              .filter(Boolean)
+              .join(" · ")}
+            . Where no column holds them they are filled in below as the values for the whole file: check them before you import.
+          </span>
+        </Notice>
+      ) : null}
 
       <Form method="post" className="space-y-6">
         <input type="hidden" name="base" value={JSON.stringify(d.mapping)} />
         <section className="panel overflow-x-auto">
           <h2 className="text-lg font-semibold">1 · Columns and units</h2>
           <div className="mt-2 flex flex-wrap gap-4 text-sm">
+            <label className="flex items-center gap-2">
+              Text encoding
+              <select name="encoding" defaultValue={d.mapping.encoding ?? d.encoding.name} className="field w-auto" data-testid="encoding">
+                {ENCODINGS.map((e) => (
+                  <option key={e} value={e}>
+                    {ENCODING_LABEL[e]}
+                    {e === d.encoding.name && d.encoding.how !== "chosen" ? (d.encoding.how === "fallback" ? " (not valid UTF-8: guessed)" : " (detected)") : ""}
+                  </option>
+                ))}
+              </select>
+            </label>
             <label className="flex items-center gap-2">
               Layout
               <select name="layout" defaultValue={d.mapping.layout} className="field w-auto">
@@ -145,7 +218,30 @@ export default function UploadPreview() {
               <input name="defaultSpeed" inputMode="decimal" defaultValue={d.mapping.defaults.speed ?? ""} className="field w-24" />
             </label>
             <label className="flex items-center gap-2">
+              Impeller Ø when the file has none (mm)
+              <input
+                name="defaultImpeller"
+                inputMode="decimal"
+                defaultValue={d.mapping.defaults.impeller !== undefined && d.mapping.defaults.impellerUnit === "mm" ? d.mapping.defaults.impeller : ""}
+                className="field w-24"
+              />
+            </label>
+            <label className="flex items-center gap-2">
+              Fluid (as stated)
+              <input name="fluid" defaultValue={d.mapping.defaults.fluid ?? ""} className="field w-40" maxLength={120} />
+            </label>
+            <label className="flex items-center gap-2">
               <input type="checkbox" name="fillDownModel" defaultChecked={d.mapping.fillDownModel} /> copy the model down into blank cells
+            </label>
+            <label className="flex items-center gap-2">
+              <input type="checkbox" name="fillDownKeys" defaultChecked={d.mapping.fillDownKeys ?? false} /> fill blank key cells (speed, impeller) from the row above
+            </label>
+            <label className="flex items-center gap-2">
+              Curves with bad points
+              <select name="policy" defaultValue={d.mapping.policy ?? "skip-curves"} className="field w-auto" data-testid="policy">
+                <option value="skip-curves">skip the whole curve</option>
+                <option value="drop-points">drop the bad points, keep curves with ≥ 3 good ones</option>
+              </select>
             </label>
           </div>
           <table className="mt-3 w-full text-sm">
@@ -204,8 +300,8 @@ export default function UploadPreview() {
         <section className="panel">
           <h2 className="text-lg font-semibold">2 · What the importer found</h2>
           <p className="mt-1 text-sm" data-testid="import-stats">
-            {d.stats.curveSets} curves ({d.stats.curveSetsOk} good, {bad} flagged) from {d.stats.pointRows} point rows ·{" "}
-            {d.stats.errors} errors · {d.stats.warnings} warnings
+            {plural(d.stats.curveSets, "curve")} ({d.stats.curveSetsOk} good, {bad} flagged) from {plural(d.stats.pointRows, "point row")} ·{" "}
+            {plural(d.stats.errors, "error")} · {plural(d.stats.warnings, "warning")}
           </p>
           {d.preview.length ? (
             <div className="mt-3">
@@ -235,7 +331,7 @@ export default function UploadPreview() {
                         {p.severity === "error" ? "✖ " : "▲ "}
                         {p.reason}
                       </td>
-                      <td className="text-xs">{p.curveKey ?? ""}</td>
+                      <td className="text-xs">{p.curve}</td>
                     </tr>
                   ))}
                 </tbody>
@@ -255,18 +351,19 @@ export default function UploadPreview() {
           <h2 className="text-lg font-semibold">3 · Import</h2>
           <p className="text-sm text-slate-700">
             {d.stats.curveSetsOk > 0
-              ? `Imports the ${d.stats.curveSetsOk} good curves as a new revision${bad ? ` and skips the ${bad} flagged ones` : ""}. Selections made from older revisions keep theirs. To fix flagged curves, correct the file and upload it again.`
-              : "No curve passed the checks. Change the column mapping above or fix the file and upload it again."}
+              ? `Imports the ${plural(d.stats.curveSetsOk, "good curve")} as a new revision${bad ? ` and skips the ${bad} flagged` : ""}. Selections made from older revisions keep theirs.${d.flagged.total ? " To fix flagged rows, correct them in the grid below." : ""}`
+              : `No curve passed the checks. Change the column mapping above${d.flagged.total ? ", correct the flagged rows in the grid below," : ""} or fix the file and upload it again.`}
           </p>
           <label className="block max-w-xl text-sm">
             <span className="label">Note for this revision</span>
             <input name="note" className="field" maxLength={500} placeholder="e.g. vendor export of March, new 4-pole range" />
           </label>
           <button className="btn" name="intent" value="import" disabled={d.stats.curveSetsOk === 0}>
-            Import {d.stats.curveSetsOk} curves
+            Import {plural(d.stats.curveSetsOk, "curve")}
           </button>
         </section>
       </Form>
+      <FixGrid headers={d.headers} rows={d.flagged.rows} total={d.flagged.total} encoding={d.mapping.encoding ?? d.encoding.name} />
     </div>
   );
 }

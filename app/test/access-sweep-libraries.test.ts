@@ -125,6 +125,17 @@ describe("access sweep (libraries, projects, API): workspace A cannot reach work
       expect(await bUnchanged(ctx)).toBe(true);
     });
   }
+  test("POST /libraries/:id/uploads/:uploadId intent=fix (corrected copy of B's upload)", async () => {
+    const form = { intent: "fix", "cell.2.0": "pwned", "cell.3.4": "1" };
+    const r = await call(uploadPage.action as unknown as Fn, { path: `/libraries/${ctx.lib}/uploads/${ctx.upload}`, params: { id: String(ctx.lib), uploadId: String(ctx.upload) }, cookie: ctx.a.cookie, form });
+    expect([403, 404]).toContain(r.status);
+    expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1); // no corrected copy in B's library
+    // a member of B's own workspace whose role may not edit libraries is refused too
+    const e = await makeMember("engineer", ctx.b.workspaceId);
+    const r2 = await call(uploadPage.action as unknown as Fn, { path: `/libraries/${ctx.lib}/uploads/${ctx.upload}`, params: { id: String(ctx.lib), uploadId: String(ctx.upload) }, cookie: e.cookie, form });
+    expect([403, 404]).toContain(r2.status);
+    expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1);
+  });
   test("POST /libraries/:id/upload (a file into B's library)", async () => {
     const fd = new FormData();
     fd.append("file", new File(["model,speed,flow,head\nX,2900,0,10\nX,2900,1,9\nX,2900,2,8\n"], "x.csv", { type: "text/csv" }));

@@ -6,7 +6,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createLibrary, storeUpload } from "~/lib/libraries.server";
-import { analyseText, summarise } from "~/lib/upload-analysis";
+import { analyseStored, summarise } from "~/lib/upload-analysis";
 import { analysisCacheSize, stopAnalysisWorker, summariseUpload } from "~/lib/upload-analysis.server";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
 import { call, makeMember } from "./harness";
@@ -22,7 +22,7 @@ test("the worker's summary equals the in-thread analysis; a second view reads no
   const bytes = async () => (reads++, new TextEncoder().encode(csv));
   const upload = { id: -1, sha256: `test-${Date.now()}` };
   const a = await summariseUpload(upload, bytes, null);
-  expect(a).toEqual(JSON.parse(JSON.stringify(summarise(analyseText(csv, null)))));
+  expect(a).toEqual(JSON.parse(JSON.stringify(summarise(analyseStored(csv, { mappingJson: null })))));
   const size = analysisCacheSize();
   const b = await summariseUpload(upload, bytes, null);
   expect(b).toEqual(a);

@@ -5,10 +5,17 @@
  */
 import * as v from "valibot";
 import { checkMapping, MappingSchema, suggestMapping, toLongRows, type Mapping } from "./mapping";
-import { normaliseNewlines, parseRows, stripBom, isBlankRow, type SourceRow } from "./parse";
+import { fastLongValidate } from "./fast";
+import { normaliseNewlines, parseRows, stripBom, isBlankRow, type ParseIssue, type SourceRow } from "./parse";
+import { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 import { sniffCsv, type SniffResult } from "./sniff";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
+
+export interface AnalyseOptions {
+  /** Try the fast path for clean long-layout files first (default true; tests turn it off to compare). */
+  fast?: boolean;
+}
 
 export interface AnalyseResult {
   sniff: SniffResult;
@@ -16,8 +23,12 @@ export interface AnalyseResult {
   suggestedMapping: Mapping;
   /** The mapping actually applied (the one passed in, or the suggestion). */
   mapping: Mapping;
-  /** Non-blank data rows below the header, with their 1-based source lines. */
-  rows: SourceRow[];
+  /** Non-blank data rows below the header, with their 1-based source lines (parsed on first use after the fast path). */
+  readonly rows: SourceRow[];
+  /** Title lines above the header and what was read from them (model, speed, diameter, fluid). */
+  title: TitleInfo;
+  /** True when the fast path produced the result (clean long-layout file). */
+  fastPath: boolean;
   result: ValidationResult;
 }
 
@@ -27,38 +38,67 @@ export interface AnalyseResult {
  * first and an invalid one throws v.ValiError (the caller shows the issues next to the form).
  * Its optional `source` block overrides the sniffer (delimiter, decimal comma, header row).
  */
-export function analyseCsv(text: string, mapping?: unknown): AnalyseResult {
+/** The first `lines` lines of `text` (a sample for the suggestion; a quoted cell cut short there only costs the sample). */
+function headOf(text: string, lines: number): string {
+  let at = 0;
+  for (let n = 0; n < lines; n++) {
+    const nl = text.indexOf("\n", at);
+    if (nl === -1) return text;
+    at = nl + 1;
+  }
+  return text.slice(0, at);
+}
+
+export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions = {}): AnalyseResult {
   const given = mapping === undefined ? undefined : v.parse(MappingSchema, mapping);
   const sniff = sniffCsv(text, given?.source ?? {});
   const body = normaliseNewlines(stripBom(text).text);
-  const parsed = parseRows(body, { delimiter: sniff.delimiter });
-  const rows = parsed.rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells));
-  const suggestedMapping = suggestMapping(sniff.headers, rows.slice(0, 200), sniff.decimalComma);
-  const used = given ?? suggestedMapping;
   const headerLine = sniff.headerLine || sniff.dataStartLine;
-
+  // The suggestion needs a sample only: the first 200 data rows.
+  const sample = parseRows(headOf(body, sniff.dataStartRow + 400), { delimiter: sniff.delimiter }).rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells)).slice(0, 200);
+  const title = readTitle(body, sniff);
+  const suggestedMapping = withTitleDefaults(suggestMapping(sniff.headers, sample, sniff.decimalComma), title);
+  const used = given ?? suggestedMapping;
   const structural = checkMapping(used, sniff.headers, headerLine);
-  const csvIssues: Problem[] = parsed.issues.map((i) => ({
+  const vopts = { decimalComma: sniff.decimalComma, headerLine, policy: used.policy };
+
+  let allRows: SourceRow[] | null = null;
+  let parseIssues: ParseIssue[] = [];
+  const parseAll = () => {
+    if (!allRows) {
+      const parsed = parseRows(body, { delimiter: sniff.delimiter });
+      allRows = parsed.rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells));
+      parseIssues = parsed.issues;
+    }
+    return allRows;
+  };
+  const base = { sniff, suggestedMapping, mapping: used, title };
+  const withRows = <T extends object>(o: T): T & { readonly rows: SourceRow[] } =>
+    Object.defineProperty(o, "rows", { get: parseAll, enumerable: false }) as T & { readonly rows: SourceRow[] };
+
+  if (opts.fast !== false && structural.length === 0) {
+    const quick = fastLongValidate(body, sniff, used);
+    if (quick) return withRows({ ...base, fastPath: true, result: quick });
+  }
+
+  const rows = parseAll();
+  const csvIssues: Problem[] = parseIssues.map((i) => ({
     row: i.line, column: null, reason: `CSV syntax: ${i.message}`, severity: "error", code: "csv-syntax", curveKey: null,
   }));
   const long = toLongRows(rows, used, sniff.headers);
   const fatal = structural.some((p) => p.severity === "error");
-  const result = fatal
-    ? validateLongRows([], { decimalComma: sniff.decimalComma, headerLine })
-    : validateLongRows(long.rows, { decimalComma: sniff.decimalComma, headerLine });
+  const result = fatal ? validateLongRows([], vopts) : validateLongRows(long.rows, vopts);
   const empty: Problem[] =
     rows.length === 0 && !fatal
       ? [{ row: headerLine, column: null, reason: "the file has no data rows below its header", severity: "error", code: "missing-value", curveKey: null }]
       : [];
   const problems = [...structural, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
-  return {
-    sniff,
-    suggestedMapping,
-    mapping: used,
-    rows,
+  return withRows({
+    ...base,
+    fastPath: false,
     result: { ...result, problems, stats: { ...result.stats, errors, warnings: problems.length - errors } },
-  };
+  });
 }
 
 export { sniffCsv, type SniffResult, type SniffOverrides } from "./sniff";
@@ -67,10 +107,14 @@ export {
   MappingSchema, MappedColumnSchema, BlockSchema, suggestMapping, toLongRows, checkMapping, blockLabel,
   type Mapping, type MappedColumn, type Block, type LongRow, type Cell,
 } from "./mapping";
-export { validateLongRows, curveKey, CurveSetSchema, CurvePointSchema, type CurveSet, type CurvePoint, type ValidationResult, type ValidationStats } from "./validate";
+export { validateLongRows, curveKey, WATER_20C_DENSITY, CONSISTENCY_TOLERANCE, type Policy, CurveSetSchema, CurvePointSchema, type CurveSet, type CurvePoint, type ValidationResult, type ValidationStats } from "./validate";
 export {
   FIELDS, NUMERIC_FIELDS, TEXT_FIELDS, UNITS_BY_FIELD, SI_FACTOR, DEFAULT_UNIT, toSI, guessHeader, unitAllowed,
   type Field, type NumericField, type TextField, type Unit,
 } from "./units-in-headers";
 export { parseNumber } from "./numbers";
+export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
+export { decodeBytes, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
+export { curveName, curveNameOfKey } from "./names";
 export type { Problem, ProblemCode, Severity } from "./types";
+export { applyCellEdits, csvField, EditRefused, MAX_EDITS, type CellEdit } from "./edit";

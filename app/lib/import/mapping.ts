@@ -70,9 +70,17 @@ export const MappingSchema = v.pipe(
       speed: v.optional(Positive),
       impeller: v.optional(Positive),
       impellerUnit: v.optional(v.picklist(DIAMETER_UNITS)),
+      /** Fluid and temperature as read from a title line (shown for the user to confirm; text only). */
+      fluid: v.optional(v.pipe(v.string(), v.trim(), v.maxLength(120))),
     }),
     /** Copy the model down into rows whose model cell is blank (exports that name the model once per block). */
     fillDownModel: v.boolean(),
+    /** Copy speed and impeller diameter down into blank cells of their columns (from the row above). */
+    fillDownKeys: v.optional(v.boolean()),
+    /** What to do with a curve that has bad points: keep it out (skip-curves, the default) or drop the points (drop-points). */
+    policy: v.optional(v.picklist(["skip-curves", "drop-points"])),
+    /** Text encoding of the upload as chosen on the mapping page (server side; see decode.ts). */
+    encoding: v.optional(v.picklist(["utf-8", "utf-16le", "utf-16be", "windows-1252"])),
     /** Corrections to what the sniffer found. */
     source: v.optional(
       v.object({
@@ -276,6 +284,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
     defaults.impeller = { raw: String(d.impeller), column: "(default)", unit: d.impellerUnit, preset: d.impeller };
   const modelCol = shared.find((c) => c.field === "model");
   let lastModel = "";
+  const lastKey: Partial<Record<"speed" | "impeller", string>> = {};
 
   const cellOf = (row: SourceRow, c: MappedColumn): Cell => ({ raw: row.cells[c.index] ?? "", column: c.header, unit: (c.unit ?? null) as Unit | null });
 
@@ -290,6 +299,16 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
       const m = base.model!.raw.trim();
       if (m) lastModel = m;
       else if (mapping.fillDownModel && lastModel) base.model = { ...base.model!, raw: lastModel };
+    }
+    // Blank speed/diameter cells of mapped columns: the row above's value when ticked, else the
+    // value set for blank cells (mapping defaults), else left blank for validation to name.
+    for (const f of ["speed", "impeller"] as const) {
+      const cell = base[f];
+      if (!cell || cell.column === "(default)") continue;
+      const raw = cell.raw.trim();
+      if (raw) lastKey[f] = cell.raw;
+      else if (mapping.fillDownKeys && lastKey[f] !== undefined) base[f] = { ...cell, raw: lastKey[f]! };
+      else if (defaults[f]) base[f] = defaults[f];
     }
 
     if (blocks.length === 0) {

@@ -160,7 +160,11 @@ export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResu
       if (above !== undefined && above === i - 1) {
         const cells = records[above].cells;
         const labels = cells.filter((c) => c.trim() !== "");
-        const qualified = (c: string) => extractQualifier(normaliseHeader(c)).qualifier !== null;
+        // a group label is little more than a qualifier ("2900 rpm", "Impeller Ø 250 mm"); a title line that mentions a speed is not one
+        const qualified = (c: string) => {
+          const q = extractQualifier(normaliseHeader(c));
+          return q.qualifier !== null && q.rest.replace(/\b(impeller|speed|diameter|dia|trim|at|bei|laufrad|drehzahl)\b/g, "").replace(/[^a-z0-9]/g, "").length <= 2; // little besides the qualifier
+        };
         const nQualified = labels.filter(qualified).length;
         if (nQualified > 0 && nQualified * 2 >= labels.length) {
           let group = "";

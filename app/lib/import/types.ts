@@ -19,7 +19,9 @@ export type ProblemCode =
   | "extra-cells"
   | "csv-syntax"
   | "mapping"
-  | "header-changed";
+  | "header-changed"
+  | "run-out"
+  | "inconsistent";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

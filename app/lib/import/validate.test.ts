@@ -9,7 +9,8 @@ const HEAD = "Model,Speed (rpm),Impeller (mm),Flow (m3/h),Head (m)";
 
 describe("bad.csv: each problem kind named with row, column and reason", () => {
   const r = analyseCsv(fixture("bad.csv")).result;
-  const list = r.problems.map((p) => [p.row, p.column, p.code, p.severity, p.curveKey]);
+  // bad.csv's P and η are hand-typed, not from ρgQH/P: its consistency warnings are tested in consistency.test.ts
+  const list = r.problems.filter((p) => p.code !== "inconsistent").map((p) => [p.row, p.column, p.code, p.severity, p.curveKey]);
 
   it("lists exactly one problem per kind", () => {
     // source: hand-written fixture bad.csv (line numbers counted in the file, header = line 1)

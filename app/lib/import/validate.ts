@@ -95,17 +95,33 @@ interface Building {
   firstLine: number;
   lastLine: number;
   flowColumn: string;
-  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string }>;
+  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
 }
+
+export type Policy = "skip-curves" | "drop-points";
 
 export interface ValidateOptions {
   decimalComma: boolean;
   /** Line of the header row; file-wide problems are reported there. */
   headerLine: number;
+  /**
+   * skip-curves (default): any error charged to a curve keeps the whole curve out.
+   * drop-points: a curve is imported when it keeps at least 3 good points; the bad ones are dropped and listed.
+   */
+  policy?: Policy;
+  /** Fluid density for the η = ρgQH/P consistency check, kg/m³ (default: water at 20 °C, 998.2). */
+  density?: number;
 }
+
+/** Water at 20 °C, kg/m³ (from memory, 998.2; the demo data in fixtures/demo/FORMAT.md uses the same) and standard gravity, m/s² (3rd CGPM 1901, exact). */
+export const WATER_20C_DENSITY = 998.2;
+export const G_STANDARD = 9.80665;
+/** η from a row versus ρgQH/P: a gap above this (fraction, i.e. 3 points of efficiency) is flagged. */
+export const CONSISTENCY_TOLERANCE = 0.03;
 
 export function validateLongRows(rows: LongRow[], opts: ValidateOptions): ValidationResult {
   const problems: Problem[] = [];
+  const density = opts.density ?? WATER_20C_DENSITY;
   const curves = new Map<string, Building>();
   const order: string[] = [];
   const lastKeyInBlock = new Map<number, string>();
@@ -118,6 +134,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
 
   for (const lr of rows) {
     const rowProblems: Array<Omit<Problem, "curveKey">> = [];
+    const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
       rowProblems.push({ row: lr.line, column, reason, severity: "error", code });
 
@@ -138,6 +155,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         if (code) {
           const what = code === "not-a-number" ? "is not a number" : code === "negative" ? "is negative" : "must be greater than zero";
           bad(cell.column, code, `${FIELD_LABEL[field]} “${cell.raw.trim()}” ${what}`);
+          // Head and power below zero may be a run-out point past zero head: kept aside for the curve check.
+          if (code === "negative" && (field === "head" || field === "power" || field === "efficiency")) negatives[field] = x * (SI_FACTOR[field][cell.unit as Unit] ?? NaN);
           return null;
         }
         value = x;
@@ -164,8 +183,19 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const modelCell = lr.cells.model;
     const model = modelCell?.raw.trim() ?? "";
     if (modelCell && !model) bad(modelCell.column, "missing-model", "model is empty");
-    const speed = num("speed", false);
-    const impeller = num("impeller", false);
+    // A blank cell in a mapped speed or diameter column would start a new curve without that value
+    // (splitting the curve): it is an error charged to the curve above, with the two ways out.
+    const blankKey = (field: "speed" | "impeller") => {
+      const cell = lr.cells[field];
+      if (!cell || cell.preset !== undefined || cell.raw.trim() !== "") return false;
+      bad(cell.column, "missing-value",
+        `${FIELD_LABEL[field]} is empty; tick “fill blank key cells from the row above”${field === "speed" ? " or set a speed for blank cells" : ""}, or fill it in`);
+      return true;
+    };
+    const speedBlank = blankKey("speed");
+    const impellerBlank = blankKey("impeller");
+    const speed = speedBlank ? null : num("speed", false);
+    const impeller = impellerBlank ? null : num("impeller", false);
     const flow = num("flow", true);
     const head = num("head", true);
     const efficiency = num("efficiency", false);
@@ -213,6 +243,13 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       const t = lr.cells[f]?.raw.trim();
       if (t && b.set[f] === undefined) b.set[f] = t;
     }
+    const runOut =
+      rowProblems.length > 0 && negatives.head !== undefined && flow != null && rowProblems.every((p) => p.code === "negative");
+    if (runOut) {
+      const point: CurvePoint = { flow: flow!, head: negatives.head! };
+      b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, runOut: rowProblems });
+      continue;
+    }
     for (const p of rowProblems) add(p.row, p.column, p.code, p.reason, key);
     if (rowProblems.length) continue;
 
@@ -229,7 +266,19 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const b = curves.get(key)!;
     let prev: { line: number; point: CurvePoint; raw?: string } | null = null;
     let shutoff = 0;
-    for (const r of b.rows) {
+    // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
+    // a negative head followed by ordinary points is an error as before.
+    let tail = b.rows.length;
+    while (tail > 0 && b.rows[tail - 1].runOut) tail--;
+    for (let k = 0; k < b.rows.length; k++) {
+      const r = b.rows[k];
+      if (r.runOut) {
+        if (k >= tail)
+          add(r.line, r.headColumn, "run-out",
+            `run-out point past zero head (head ${fmt(r.point.head)} m) at the end of the curve; dropped, the curve is kept`, key, "warning");
+        else for (const p of r.runOut) add(p.row, p.column, p.code, p.reason, key);
+        continue;
+      }
       const p = r.point;
       if (prev) {
         if (p.flow === prev.point.flow) {
@@ -249,6 +298,14 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       } else shutoff = p.head;
       b.set.points.push(p);
       prev = r;
+      // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0.
+      if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
+        const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
+        if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
+          add(r.line, null, "inconsistent",
+            `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${density} kg/m³): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
+            key, "warning");
+      }
     }
     if (b.set.points.length < 3)
       add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
@@ -257,7 +314,12 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     curveSets.push(b.set);
   }
 
-  const badKeys = new Set(problems.filter((p) => p.severity === "error" && p.curveKey).map((p) => p.curveKey!));
+  const policy = opts.policy ?? "skip-curves";
+  // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
+  // fewer than 3 good points (or the later copy of a duplicate, which is never built) is kept out.
+  const badKeys = new Set(
+    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || p.code === "too-few-points")).map((p) => p.curveKey!),
+  );
   for (const c of curveSets) c.ok = !badKeys.has(c.key);
   problems.sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;

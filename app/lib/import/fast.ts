@@ -1,0 +1,230 @@
+/**
+ * Fast path for clean long-layout files (the usual big export): one pass over the text with
+ * indexOf, cells sliced only for mapped columns, numbers read without regular expressions, no
+ * per-cell objects. It gives the same result as toLongRows + validateLongRows — or null as soon as
+ * anything would need a message (quotes, a bad or blank cell, extra cells, a sequence problem, a
+ * warning...), and the caller then runs the full path, which names every problem. Pure.
+ * app/lib/import/fast.test.ts checks that both paths agree on every clean fixture.
+ */
+import type { Mapping } from "./mapping";
+import { parseNumber } from "./numbers";
+import type { SniffResult } from "./sniff";
+import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
+import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type CurvePoint, type CurveSet, type ValidationResult } from "./validate";
+
+const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
+
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`)); // exact doubles up to 1e22
+
+/**
+ * The number in body[i, end) when it is a plain decimal ([-+]digits[.digits]), read straight from
+ * the character codes; NaN otherwise (the cell then goes through parseNumber). With at most 15
+ * significant digits the mantissa is an exact integer and 10^k (k ≤ 22) an exact double, so one
+ * division is correctly rounded: the same double as Number() gives (Clinger 1990, "How to read
+ * floating point numbers accurately", the fast path).
+ */
+function numberAt(body: string, i: number, end: number, decimal: number): number {
+  let neg = false;
+  if (i < end) {
+    const c = body.charCodeAt(i);
+    if (c === 45) {
+      neg = true;
+      i++;
+    } else if (c === 43) i++;
+  }
+  let m = 0;
+  let frac = 0;
+  let dot = false;
+  let any = false;
+  for (; i < end; i++) {
+    const c = body.charCodeAt(i);
+    if (c >= 48 && c <= 57) {
+      if (m >= 1e14) return NaN;
+      m = m * 10 + (c - 48);
+      any = true;
+      if (dot) frac++;
+    } else if (c === decimal && !dot) dot = true;
+    else return NaN;
+  }
+  if (!any || frac > 22) return NaN;
+  const x = frac ? m / POW10[frac] : m;
+  return neg ? -x : x;
+}
+
+const BLANK_LINE = /^[\s,;]*$/;
+
+export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapping, density = WATER_20C_DENSITY): ValidationResult | null {
+  if (mapping.layout !== "long" || body.indexOf('"') !== -1) return null;
+  const width = sniff.headers.length;
+  const delim = sniff.delimiter;
+  const dc = sniff.decimalComma;
+  // column index → slot; slots: 0..6 numeric fields, 7 model, 8 type, 9 size, 10 notes
+  const slotOf = new Int8Array(width).fill(-1);
+  const factor = new Float64Array(7).fill(NaN);
+  const colOf = new Int32Array(11).fill(-1);
+  for (const c of mapping.columns) {
+    if (c.field === "ignore" || c.index >= width) continue;
+    const k = NUMERIC.indexOf(c.field as NumericField);
+    const slot = k >= 0 ? k : 7 + ["model", "type", "size", "notes"].indexOf(c.field);
+    if (slot < 0 || colOf[slot] !== -1) return null;
+    slotOf[c.index] = slot;
+    colOf[slot] = c.index;
+    if (k >= 0) {
+      const f = SI_FACTOR[c.field as NumericField][c.unit as Unit];
+      if (f === undefined) return null;
+      factor[k] = f;
+    }
+  }
+  if (colOf[2] < 0 || colOf[3] < 0) return null;
+  const d = mapping.defaults;
+  let defaultModel = "";
+  if (colOf[7] < 0) {
+    if (!d.model) return null;
+    defaultModel = d.model;
+  }
+  const defSpeed = colOf[0] < 0 && d.speed !== undefined ? d.speed : null;
+  const defImpeller = colOf[1] < 0 && d.impeller !== undefined && d.impellerUnit ? d.impeller * (SI_FACTOR.impeller[d.impellerUnit] ?? NaN) : null;
+  if (colOf[0] < 0 && defSpeed === null) return null; // no-speed warning: the full path says it
+
+  const cellStart = new Int32Array(width);
+  const cellEnd = new Int32Array(width);
+  const decimal = dc ? 44 : 46;
+  const num = new Float64Array(7);
+  const curveSets: CurveSet[] = [];
+  const seen = new Set<string>();
+  let cur: CurveSet | null = null;
+  let curModel = "";
+  let lastRaw = "\u0000"; // model cell text of the row above, and trimmed (to skip slicing repeats)
+  let lastRawTrim = "";
+  let curSpeed: number | null = null;
+  let curImpeller: number | null = null;
+  let pointRows = 0;
+  let lastModel = "";
+
+  // skip to the first data record (no quotes: one record per line)
+  let pos = 0;
+  let line = 1;
+  for (let r = 0; r < sniff.dataStartRow; r++) {
+    const nl = body.indexOf("\n", pos);
+    if (nl === -1) return null;
+    pos = nl + 1;
+    line++;
+  }
+  const len = body.length;
+  for (; pos < len; line++) {
+    let end = body.indexOf("\n", pos);
+    if (end === -1) end = len;
+    // cells
+    let col = 0;
+    let start = pos;
+    for (;;) {
+      let cut = body.indexOf(delim, start);
+      if (cut === -1 || cut > end) cut = end;
+      if (col < width) {
+        cellStart[col] = start;
+        cellEnd[col] = cut;
+      } else if (body.slice(start, cut).trim() !== "") return null; // extra cells: a warning
+      col++;
+      if (cut === end) break;
+      start = cut + 1;
+    }
+    for (let k = col; k < width; k++) cellStart[k] = cellEnd[k] = end;
+    const lineStart = pos;
+    pos = end + 1;
+    if (cellStart[colOf[2]] === cellEnd[colOf[2]] && cellStart[colOf[3]] === cellEnd[colOf[3]]) {
+      if (BLANK_LINE.test(body.slice(lineStart, end))) continue; // a blank row (cells empty or spaces)
+      return null;
+    }
+    pointRows++;
+
+    for (let k = 0; k < 7; k++) {
+      const ci = colOf[k];
+      if (ci < 0) {
+        num[k] = NaN;
+        continue;
+      }
+      const a = cellStart[ci];
+      const e = cellEnd[ci];
+      if (a === e) {
+        if (k <= 3) return null; // flow and head are required; a blank speed or diameter cell needs a message
+        num[k] = NaN;
+        continue;
+      }
+      let x = numberAt(body, a, e, decimal);
+      if (x !== x) x = parseNumber(body.slice(a, e), dc);
+      if (!(x >= 0) || ((k === 0 || k === 1) && x === 0)) return null; // not a number, negative, zero key
+      const si = x * factor[k];
+      if (!Number.isFinite(si) || si > 1e12 || (k === 4 && si > 1 + 1e-9)) return null;
+      num[k] = si;
+    }
+    let model: string;
+    if (colOf[7] >= 0) {
+      const a = cellStart[colOf[7]];
+      const e = cellEnd[colOf[7]];
+      // same text as the row above: no new string
+      if (!(e - a === lastRaw.length && body.startsWith(lastRaw, a))) {
+        lastRaw = body.slice(a, e);
+        lastRawTrim = lastRaw.trim();
+      }
+      model = lastRawTrim;
+      if (model) lastModel = model;
+      else if (mapping.fillDownModel && lastModel) model = lastModel;
+      else return null;
+    } else model = defaultModel;
+    const speed = colOf[0] >= 0 ? num[0] : defSpeed;
+    const impeller = colOf[1] >= 0 ? num[1] : defImpeller;
+
+    if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
+      const key = curveKey(model, speed, impeller);
+      if (seen.has(key)) return null; // duplicate curve
+      seen.add(key);
+      cur = { key, model, speed, impellerDiameter: impeller, points: [], sourceRows: [], ok: true };
+      curveSets.push(cur);
+      curModel = model;
+      curSpeed = speed;
+      curImpeller = impeller;
+    }
+    for (let t = 8; t <= 10; t++) {
+      const ci = colOf[t];
+      if (ci < 0) continue;
+      const f = t === 8 ? "type" : t === 9 ? "size" : "notes";
+      if (cur[f] === undefined) {
+        const v = body.slice(cellStart[ci], cellEnd[ci]).trim();
+        if (v) cur[f] = v;
+      }
+    }
+    const eff = num[4], pow = num[5], npsh = num[6];
+    let p: CurvePoint;
+    // one object shape for the usual full row (absent values stay absent, as in the full path)
+    if (eff === eff && pow === pow && npsh === npsh) p = { flow: num[2], head: num[3], efficiency: eff, power: pow, npshr: npsh };
+    else {
+      p = { flow: num[2], head: num[3] };
+      if (eff === eff) p.efficiency = eff;
+      if (pow === pow) p.power = pow;
+      if (npsh === npsh) p.npshr = npsh;
+    }
+    const pts = cur.points;
+    if (pts.length) {
+      const prev = pts[pts.length - 1];
+      if (!(p.flow > prev.flow)) return null;
+      if (p.head - prev.head > 0.05 * pts[0].head + 1e-12) return null;
+    }
+    if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
+      const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
+      if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE) return null;
+    }
+    pts.push(p);
+    cur.sourceRows.push(line);
+  }
+  if (pointRows === 0) return null;
+  let points = 0;
+  for (const c of curveSets) {
+    if (c.points.length < 3) return null;
+    points += c.points.length;
+  }
+  return {
+    curveSets,
+    problems: [],
+    stats: { pointRows, pointsAccepted: points, curveSets: curveSets.length, curveSetsOk: curveSets.length, errors: 0, warnings: 0 },
+  };
+}
