@@ -6,7 +6,7 @@
 import { spawn, spawnSync } from "node:child_process";
 import { cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
-import { DATA_ROOT, ensureDebianPackages, freePort, ping } from "./mariadb.mjs";
+import { DATA_ROOT, createDatabase, ensureDebianPackages, freePort, pidAlive, ping } from "./mariadb.mjs";
 
 const log = (msg) => process.stderr.write(`[galera] ${msg}\n`);
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -43,15 +43,6 @@ export function wsrepStatus(socket, name) {
     return out.split("\t")[1] ?? "";
   } catch {
     return "";
-  }
-}
-
-function pidAlive(pid) {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
   }
 }
 
@@ -205,16 +196,6 @@ export async function startGaleraCluster(size = 3) {
 }
 
 /** Creates the database and its user through one node; Galera replicates both to every node. */
-export function createClusterDatabase(socket, { database, user, password }) {
-  const q = (s) => s.replace(/[`'\\]/g, "");
-  sqlAt(
-    socket,
-    [
-      `CREATE DATABASE IF NOT EXISTS \`${q(database)}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
-      ...["127.0.0.1", "localhost"].flatMap((host) => [
-        `CREATE USER IF NOT EXISTS '${q(user)}'@'${host}' IDENTIFIED BY '${q(password)}';`,
-        `GRANT ALL PRIVILEGES ON \`${q(database)}\`.* TO '${q(user)}'@'${host}';`,
-      ]),
-    ].join(" "),
-  );
+export function createClusterDatabase(socket, spec) {
+  createDatabase(socket, spec);
 }

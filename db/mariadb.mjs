@@ -152,7 +152,7 @@ function sqlAsRoot(socket, sql) {
   });
 }
 
-function pidAlive(pid) {
+export function pidAlive(pid) {
   try {
     process.kill(pid, 0);
     return true;

@@ -12,7 +12,7 @@ import { closeDb, db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels } from "@db/schema";
 import { createLibrary } from "~/lib/libraries.server";
 import { createApiToken } from "~/lib/accounts.server";
-import { makeMember } from "./harness";
+import { freePort, makeMember } from "./harness";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
 
 const ROOT = path.resolve(__dirname, "../..");
@@ -53,17 +53,6 @@ function relay(target: { host: string; port: number }) {
     });
   return { open, cut, get port() { return port; } };
 }
-
-/** A port the OS says is free now (never a fixed one: other checkouts may run beside this one). */
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once("error", reject);
-    srv.listen(0, "127.0.0.1", () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
 
 const dbUrl = new URL(process.env.DATABASE_URL ?? "mariadb://x@127.0.0.1:3307/x");
 const target = { host: dbUrl.hostname, port: Number(dbUrl.port || 3306) };

@@ -1,5 +1,6 @@
 // Helpers for route-level integration tests: real MariaDB, real guards, real route modules,
 // called the way React Router calls them (loader/action with a Request).
+import net from "node:net";
 import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { memberships, users, workspaces } from "@db/schema";
@@ -77,3 +78,14 @@ async function normalise(out: unknown): Promise<CallResult> {
   if (out instanceof Error) throw out;
   return { status: 200, body: out, location: null, headers: new Headers() };
 }
+
+/** A port the OS says is free now (never a fixed one: other checkouts may run beside this one). */
+export const freePort = () =>
+  new Promise<number>((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once("error", reject);
+    srv.listen(0, "127.0.0.1", () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });

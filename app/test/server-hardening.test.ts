@@ -2,27 +2,16 @@
 // form-action and HSTS, Cache-Control on personal responses, and body limits counted on the bytes
 // read — chunked bodies included (issue 14). Runs the built app as its own process, like faults.test.ts.
 import http from "node:http";
-import net from "node:net";
 import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/accounts.server";
-import { makeMember } from "./harness";
+import { freePort, makeMember } from "./harness";
 
 const ROOT = path.resolve(__dirname, "../..");
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once("error", reject);
-    srv.listen(0, "127.0.0.1", () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
 
 let app: ChildProcess | null = null;
 let base = "";
