@@ -164,13 +164,19 @@ function holdNotice(): string {
  * Writes the message to the outbox, then tries to send it once. Resolves with the outcome; it
  * rejects only when the message is invalid (MailInputError) or the outbox row cannot be written.
  */
-export async function sendMail(message: MailMessage): Promise<SendOutcome> {
+/** Validates the message and writes it to the outbox (the flusher is started); returns the row id and the checked message. */
+async function writeToOutbox(message: MailMessage): Promise<{ id: number; m: MailMessage }> {
   const m = validate(message);
   const [{ id }] = await db()
     .insert(outbox)
     .values({ toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html })
     .$returningId();
   ensureOutboxFlusher();
+  return { id, m };
+}
+
+export async function sendMail(message: MailMessage): Promise<SendOutcome> {
+  const { id, m } = await writeToOutbox(message);
   const url = smtpUrl();
   if (!url) {
     const error = holdNotice();
@@ -190,12 +196,7 @@ export async function sendMail(message: MailMessage): Promise<SendOutcome> {
  * Under vitest the kick is off unless MAIL_FLUSH_INTERVAL_MS is set (tests flush by hand).
  */
 export async function queueMail(message: MailMessage): Promise<{ id: number }> {
-  const m = validate(message);
-  const [{ id }] = await db()
-    .insert(outbox)
-    .values({ toAddress: m.to, subject: m.subject, textBody: m.text, htmlBody: m.html })
-    .$returningId();
-  ensureOutboxFlusher();
+  const { id, m } = await writeToOutbox(message);
   if (!(process.env.VITEST && process.env.MAIL_FLUSH_INTERVAL_MS === undefined)) {
     const url = smtpUrl();
     if (url) {
