@@ -1,27 +1,13 @@
 // One duty-point search result as the read API returns it (pure; SI units). The search's own
 // result carries the figures; the curve set's model id and library come from the caller when the
 // result does not carry them itself.
-import type { EngineWarning } from "~/engine";
+import type { Candidate } from "~/engine";
 
-/** The fields of a search result this view reads (a search result has more). */
-export type SearchResultIn = {
-  id: string;
-  rank: number;
-  label: string;
-  method: "direct" | "trim" | "speed";
-  ratio: number;
-  speed: number | null;
-  diameter: number | null;
-  headAtDuty: number;
-  efficiency: number | null;
-  bepRatio: number | null;
-  inPor: boolean | null;
-  npshr: number | null;
-  npshMargin: number | null;
-  shaftPower: number | null;
-  score: number;
-  reason: string;
-  warnings: EngineWarning[];
+/** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
+export type SearchResultIn = Pick<
+  Candidate,
+  "id" | "rank" | "label" | "method" | "ratio" | "speed" | "diameter" | "headAtDuty" | "efficiency" | "bepRatio" | "inPor" | "npshr" | "npshMargin" | "shaftPower" | "score" | "reason" | "warnings"
+> & {
   curveSetId: number;
   model: string;
   type: string;
