@@ -8,6 +8,13 @@ import { ServerRouter } from "react-router";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
+import { assertSettings } from "~/lib/shared/env.server";
+
+/**
+ * Every setting, validated once when the server build is loaded: a missing or bad value stops the
+ * server here with one line per problem (app/serve.mjs prints them), instead of failing later.
+ */
+export const startupSettings = assertSettings();
 
 export const streamTimeout = 5_000;
 

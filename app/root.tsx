@@ -12,12 +12,12 @@ import {
 } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
-import { csrfRefusal } from "~/lib/csrf.server";
-import { getAuth } from "~/lib/auth.server";
-import { currentMembership } from "~/lib/guards.server";
-import { problem } from "~/lib/problem.server";
-import { ensureOutboxFlusher } from "~/lib/mail.server";
-import { databaseTrouble } from "~/lib/health.server";
+import { csrfRefusal } from "~/lib/auth/csrf.server";
+import { getAuth } from "~/lib/auth/session.server";
+import { currentMembership } from "~/lib/auth/guards.server";
+import { problem } from "~/lib/shared/problem.server";
+import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
+import { databaseTrouble } from "~/lib/shared/health.server";
 
 /**
  * Bodies that declare more than these sizes are refused before any action reads them (413). The

@@ -16,10 +16,20 @@ import helmet from "helmet";
 import { createRequestHandler } from "@react-router/express";
 
 const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
-const build = await import(pathToFileURL(buildPath).href);
-const port = Number(process.env.PORT ?? 3000);
-const host = process.env.HOST ?? "127.0.0.1";
-const trustProxy = process.env.TRUST_PROXY === "1";
+let build;
+try {
+  build = await import(pathToFileURL(buildPath).href);
+} catch (err) {
+  // app/lib/shared/env.server.ts: every bad setting named, one per line; no stack needed.
+  if (err?.name === "SettingsError") {
+    process.stderr.write(`[serve] ${err.message}\n`);
+    process.exit(1);
+  }
+  throw err;
+}
+/** Validated by app/lib/shared/env.server.ts when the build loaded (app/entry.server.tsx). */
+const settings = build.entry.module.startupSettings;
+const { port, host, trustProxy } = settings;
 
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
 /** Read by app/entry.server.tsx; always overwritten here. */
@@ -27,7 +37,7 @@ export const CSP_NONCE_HEADER = "x-dutymark-csp-nonce";
 
 /**
  * Body limits by path, counted on the bytes read (app/root.tsx refuses the same sizes up front by
- * Content-Length; keep the two tables equal). The calculators (fast path below) read at most their
+ * Content-Length; keep the two tables equal). The calculators (calcAction) also read at most their
  * own limit themselves.
  */
 const BODY_LIMITS = [
@@ -45,11 +55,11 @@ function originOf(url) {
     return null;
   }
 }
-const appOrigin = originOf(process.env.APP_URL);
+const appOrigin = originOf(settings.appUrl);
 const https = appOrigin?.startsWith("https://") ?? false;
 // Forms post to us; the billing form is answered by a redirect to the Stripe checkout (or the local
 // stand-in when STRIPE_API_BASE points at it), which form-action also governs.
-const formAction = ["'self'", appOrigin, ...(process.env.STRIPE_API_BASE ? [originOf(process.env.STRIPE_API_BASE)] : ["https://checkout.stripe.com", "https://billing.stripe.com"])].filter(Boolean);
+const formAction = ["'self'", appOrigin, ...(settings.stripe.apiBase ? [originOf(settings.stripe.apiBase)] : ["https://checkout.stripe.com", "https://billing.stripe.com"])].filter(Boolean);
 const securityHeaders = helmet({
   contentSecurityPolicy: {
     useDefaults: false,
@@ -139,7 +149,7 @@ app.use(securityHeaders);
 const assetsDir = path.join(path.dirname(buildPath), "..", "client");
 app.use("/assets", express.static(path.join(assetsDir, "assets"), { immutable: true, maxAge: "1y" }));
 app.use(express.static(assetsDir, { maxAge: "1h" }));
-if (process.env.ACCESS_LOG !== "0") {
+if (settings.accessLog) {
   app.use((req, res, next) => {
     const t0 = process.hrtime.bigint();
     res.on("finish", () => {
@@ -158,48 +168,8 @@ app.use((err, req, res, next) => {
   next(err);
 });
 
-// The public calculators are the hottest, simplest endpoints: stateless, no cookies, no page. They go
-// straight to their route module's action (the same code React Router would call), skipping Express
-// and the router's matching. Everything they need (auth, rate limit, validation, problem+json) is in
-// calcAction itself; the root middleware exempts them from the CSRF check anyway.
-const CALC = new Map(
-  ["pipe-loss", "system-curve", "operating-point"].map((n) => [`/api/v1/calc/${n}`, build.routes[`routes/api.v1.calc.${n}`]?.module]),
-);
-const SECURITY_HEADERS = {
-  "Content-Security-Policy": "default-src 'none'; frame-ancestors 'none'",
-  "X-Content-Type-Options": "nosniff",
-  "Referrer-Policy": "strict-origin-when-cross-origin",
-  "X-Frame-Options": "DENY",
-};
-
-async function calcFastPath(req, res, mod) {
-  const t0 = process.hrtime.bigint();
-  try {
-    const url = `http://${req.headers.host ?? `${host}:${port}`}${req.url}`;
-    const headers = new Headers();
-    for (const [k, v] of Object.entries(req.headers)) if (v !== undefined) headers.set(k, Array.isArray(v) ? v.join(", ") : v);
-    headers.set(CLIENT_IP_HEADER, (trustProxy ? String(req.headers["x-forwarded-for"] ?? "").split(",")[0].trim() : "") || req.socket.remoteAddress || "");
-    const request = new Request(url, { method: req.method, headers, body: req, duplex: "half" });
-    const response = await mod.action({ request, params: {}, context: {} });
-    const out = { ...SECURITY_HEADERS, "Cache-Control": "private, no-store" };
-    response.headers.forEach((v, k) => (out[k] = v));
-    res.writeHead(response.status, out);
-    res.end(Buffer.from(await response.arrayBuffer()));
-  } catch (err) {
-    if (req.destroyed || err?.code === "ECONNRESET" || err?.message === "aborted") return; // the client went away
-    process.stderr.write(`[serve] calc: ${err?.stack ?? err}\n`);
-    if (!res.headersSent) res.writeHead(500, { "Content-Type": "application/problem+json", ...SECURITY_HEADERS });
-    res.end(JSON.stringify({ type: "about:blank", title: "Internal Server Error", status: 500 }));
-  }
-  if (process.env.ACCESS_LOG !== "0") process.stdout.write(`${req.method} ${req.url} ${res.statusCode} ${(Number(process.hrtime.bigint() - t0) / 1e6).toFixed(1)} ms\n`);
-}
-
-const server = http.createServer((req, res) => {
-  const path = (req.url ?? "").split("?")[0].replace(/\/$/, "");
-  const mod = req.method === "POST" ? CALC.get(path) : undefined;
-  if (mod?.action) return void calcFastPath(req, res, mod);
-  app(req, res);
-});
+// One way in: every request, the calculators included, goes through Express and the router.
+const server = http.createServer(app);
 server.listen(port, host, () => {
   process.stdout.write(`[serve] Dutymark listening on http://${host}:${port}\n`);
 });

@@ -1,5 +1,5 @@
 // The enumerations the schema's columns need (roles, visibilities, plans). The app reads them
-// through app/lib/constants.ts; the database layer imports nothing of the app.
+// through app/lib/shared/constants.ts; the database layer imports nothing of the app.
 export const ROLES = ["admin", "engineer", "distributor", "contractor", "viewer"] as const;
 export type Role = (typeof ROLES)[number];
 

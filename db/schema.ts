@@ -37,7 +37,7 @@ export const workspaces = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     slug: varchar("slug", { length: 140 }).notNull(),
     plan: mysqlEnum("plan", PLANS).notNull().default("free"),
-    // Billing (Stripe): changed only by verified webhooks (app/lib/billing.server.ts).
+    // Billing (Stripe): changed only by verified webhooks (app/lib/billing/billing.server.ts).
     stripeCustomerId: varchar("stripe_customer_id", { length: 64 }),
     stripeSubscriptionId: varchar("stripe_subscription_id", { length: 64 }),
     subscriptionStatus: varchar("subscription_status", { length: 32 }),

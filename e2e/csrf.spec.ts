@@ -4,7 +4,7 @@ import { signIn } from "./helpers";
 // Every route with an action refuses a cross-site POST carrying the signed-in user's cookie:
 // our middleware answers 403 (data requests and resource routes); React Router's own check answers
 // 400 for document POSTs. The public calculators (no cookies) and the Stripe webhook (signature)
-// are the only exemptions (app/lib/csrf.server.ts).
+// are the only exemptions (app/lib/auth/csrf.server.ts).
 const UI_ACTIONS = [
   "/signup", "/signin", "/signout", "/verify", "/forgot", "/reset", "/account", "/workspace", "/workspace/new",
   "/workspace/billing", "/invite/abc", "/dev/mailbox", "/libraries", "/libraries/1", "/libraries/1/uploads/1",

@@ -13,7 +13,7 @@ const PNG_1PX = Buffer.from(
   "base64",
 );
 
-// The mail template's words for each verdict (app/lib/mail-templates.ts) and ours for "unknown".
+// The mail template's words for each verdict (app/lib/mail/templates.ts) and ours for "unknown".
 const MAIL_WORDS: Record<string, string> = {
   pass: "within tolerance",
   marginal: "at the tolerance limit",

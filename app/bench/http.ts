@@ -8,9 +8,9 @@ import { spawn } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import autocannon from "autocannon";
-import { runCalc } from "~/lib/calc-api.server";
-import { createApiToken } from "~/lib/accounts.server";
-import { startSession } from "~/lib/auth.server";
+import { runCalc } from "~/lib/calc-api";
+import { createApiToken } from "~/lib/auth/accounts.server";
+import { startSession } from "~/lib/auth/session.server";
 import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, listCandidates, selectCandidate } from "~/lib/projects.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
@@ -123,11 +123,16 @@ export async function runHttpBench() {
     await load("warm", `${app.url}/api/v1/calc/pipe-loss`, { "content-type": "application/json", authorization: `Bearer ${token}` }, { body: BODY, duration: 2 });
     const b = await load("bare node:http (same calculation)", `${bare.url}/`, { "content-type": "application/json" }, { body: BODY });
     const a = await load("calc API, POST /api/v1/calc/pipe-loss", `${app.url}/api/v1/calc/pipe-loss`, { "content-type": "application/json", authorization: `Bearer ${token}` }, { body: BODY });
+    // Liveness through the same router (no database): the calculators go through Express and React
+    // Router like every route (issue 15, "one way in"); their goal is ≥ 0.8× this.
+    await load("warm", `${app.url}/livez`, {}, { method: "GET", duration: 2 });
+    const l = await load("GET /livez (router, no database)", `${app.url}/livez`, {}, { method: "GET" });
     out.push(`HTTP on loopback, ${CONNECTIONS} connections, ${SECONDS} s each (autocannon)`);
     out.push("");
     out.push(`${"".padEnd(40)} ${"req/s".padStart(9)} ${"p50 ms".padStart(8)} ${"p99 ms".padStart(8)} ${"errors".padStart(7)} ${"non-2xx".padStart(8)}`);
-    for (const r of [b, a]) out.push(`${r.label.padEnd(40)} ${r.rps.toFixed(0).padStart(9)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.non2xx).padStart(8)}`);
+    for (const r of [b, l, a]) out.push(`${r.label.padEnd(40)} ${r.rps.toFixed(0).padStart(9)} ${String(r.p50).padStart(8)} ${String(r.p99).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.non2xx).padStart(8)}`);
     out.push(`ratio calc API / bare: ${(a.rps / b.rps).toFixed(2)} (goal ≥ 0.4; p99 goal < 25 ms)`);
+    out.push(`ratio calc API / GET /livez: ${(a.rps / l.rps).toFixed(2)} (goal ≥ 0.8: the calculators cost no more than the router itself)`);
     out.push("");
 
     // The search page against 10 000 curve sets.

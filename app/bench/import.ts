@@ -25,7 +25,7 @@ import { libraries, users, workspaces } from "@db/schema";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
 import { analyseCsv } from "~/lib/import";
 import { analyseStored, createLibrary, getUpload, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries.server";
-import { workspacesOf } from "~/lib/guards.server";
+import { workspacesOf } from "~/lib/auth/guards.server";
 import { makeMember } from "~/test/harness";
 
 export interface BenchRow {

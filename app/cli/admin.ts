@@ -4,9 +4,9 @@
 import { and, eq } from "drizzle-orm";
 import { closeDb, db, withTransaction } from "../../db/client.server";
 import { memberships, users, workspaces } from "../../db/schema";
-import { hashPassword, normaliseEmail } from "../lib/auth.server";
-import { createApiToken, newUserId, slugify } from "../lib/accounts.server";
-import { isRole } from "../lib/permissions";
+import { hashPassword, normaliseEmail } from "../lib/auth/session.server";
+import { createApiToken, newUserId, slugify } from "../lib/auth/accounts.server";
+import { isRole } from "../lib/auth/permissions";
 
 function flags(argv: string[]): Record<string, string> {
   const out: Record<string, string> = {};

@@ -30,10 +30,10 @@ import { fluidOf, toPumpPoints } from "./hydraulics";
 import { inputPowerW, MAX_PHOTO_BYTES, MAX_PHOTOS, speedRpm, VERDICT_TEXT, type CheckFields, type Readings, type Verdict } from "./fieldcheck-form";
 import type { FrozenSelection } from "./projects.server";
 import type { Viewer } from "./libraries.server";
-import { sendMail } from "./mail.server";
-import { escapeHtml, fieldCheckMail, oneLine } from "./mail-templates";
-import { appUrl } from "./accounts.server";
-import { toCsv } from "./csv";
+import { sendMail } from "./mail/outbox.server";
+import { escapeHtml, fieldCheckMail, oneLine } from "./mail/templates";
+import { appUrl } from "./auth/accounts.server";
+import { toCsv } from "./shared/csv";
 import type { CheckResult, Pt } from "./fieldcheck-result";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";

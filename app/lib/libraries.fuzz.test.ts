@@ -15,7 +15,7 @@ import { generateDemo } from "../../fixtures/demo/generate";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, UploadRejected, type Viewer } from "./libraries.server";
 import { MappingSchema } from "./import";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./guards.server";
+import { workspacesOf } from "./auth/guards.server";
 import { prng } from "../../fixtures/prng";
 
 afterAll(() => closeDb());

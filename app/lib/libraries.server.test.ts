@@ -19,7 +19,7 @@ import {
   type Viewer,
 } from "./libraries.server";
 import { makeMember, makeWorkspace, type TestMember } from "~/test/harness";
-import { workspacesOf } from "./guards.server";
+import { workspacesOf } from "./auth/guards.server";
 
 afterAll(() => closeDb());
 

@@ -9,10 +9,10 @@ import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, select
 import { bulkField, bulkLoad, bulkText } from "./bulk-load.server";
 import { analyseCsv, decodeBytes, looksBinary } from "./import";
 import { encodingOf } from "./upload-analysis";
-import { can, type Role } from "./permissions";
-import type { WorkspaceInfo } from "./guards.server";
+import { can, type Role } from "./auth/permissions";
+import type { WorkspaceInfo } from "./auth/guards.server";
 import { sweepPendingUploads } from "./uploads.server";
-import { toCsv } from "./csv";
+import { toCsv } from "./shared/csv";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 

@@ -9,7 +9,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInpu
 import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "./import";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./guards.server";
+import { workspacesOf } from "./auth/guards.server";
 
 afterAll(() => closeDb());
 

@@ -11,7 +11,7 @@ import { analyseStored, createLibrary, getUpload, importUpload, listLibraries, s
 import { createProject, createSystem, searchForSystem } from "./projects.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./guards.server";
+import { workspacesOf } from "./auth/guards.server";
 
 afterAll(() => closeDb());
 

@@ -1,10 +1,10 @@
 import * as v from "valibot";
 import { Form, useActionData, useLoaderData, useSearchParams } from "react-router";
 import type { Route } from "./+types/account";
-import { deviceId, listSessions, revokeDevice } from "~/lib/auth.server";
-import { createApiToken, listApiTokens, revokeApiToken, sendVerification, updateProfile } from "~/lib/accounts.server";
-import { requireMember } from "~/lib/guards.server";
-import { IdField, invalid, Name, readForm } from "~/lib/forms.server";
+import { deviceId, listSessions, revokeDevice } from "~/lib/auth/session.server";
+import { createApiToken, listApiTokens, revokeApiToken, sendVerification, updateProfile } from "~/lib/auth/accounts.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];

@@ -1,169 +1,23 @@
 import type { Route } from "./+types/api-docs";
-import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api.server";
+import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api/schemas";
+import { REQUEST_SCHEMAS, UNIT_SUFFIXES, calculatorCorrelations, describeRequest } from "~/lib/calc-api/docs";
+import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
+// Field tables and limits are generated from the request schemas (app/lib/calc-api/docs.ts).
 export function loader() {
   return {
     limits: CALC_LIMITS,
     rate: ANON_RATE_LIMIT,
+    endpoints: CALC_ENDPOINT_DOCS.map((e) => ({ ...e, fields: describeRequest(REQUEST_SCHEMAS[e.id]) })),
+    correlations: calculatorCorrelations(),
   };
 }
 
 export const meta: Route.MetaFunction = () => [
   { title: "API — Dutymark" },
   { name: "description", content: "Pipe loss, system curve and operating point over HTTP and JSON, in SI units." },
-];
-
-const UNITS: [string, string, string][] = [
-  ["_m3s", "m³/s", "volumetric flow"],
-  ["_m", "m", "length, diameter, roughness, head"],
-  ["_ms", "m/s", "mean velocity"],
-  ["_pa", "Pa", "pressure, pressure difference"],
-  ["_c", "°C", "temperature"],
-  ["_m2s", "m²/s", "kinematic viscosity"],
-  ["_kgm3", "kg/m³", "density"],
-  ["(none)", "—", "dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness"],
-];
-
-type Field = [name: string, rule: string];
-
-type Endpoint = {
-  id: string;
-  path: string;
-  summary: string;
-  fields: Field[];
-  request: string;
-  response: string;
-  notes?: string[];
-};
-
-const PIPE_LOSS_REQ = `{
-  "flow_m3s": 0.1,
-  "diameter_m": 0.2,
-  "length_m": 100,
-  "roughness_m": 0.00026,
-  "temperature_c": 15.6,
-  "kinematic_viscosity_m2s": 1.12e-6
-}`;
-
-const ENDPOINTS = (l: typeof CALC_LIMITS): Endpoint[] => [
-  {
-    id: "pipe-loss",
-    path: "/api/v1/calc/pipe-loss",
-    summary:
-      "Head loss in one straight pipe with its fittings: Darcy-Weisbach with the Colebrook friction factor (64/Re when laminar), plus ΣK·V²/2g for the fittings.",
-    fields: [
-      ["flow_m3s", `required, 0 to ${l.flowMax}`],
-      ["diameter_m", `required, inner diameter, above 0, at most ${l.diameterMax}`],
-      ["length_m", `required, 0 to ${l.lengthMax}`],
-      ["roughness_m", "required, absolute roughness ε, 0 or more and below diameter_m"],
-      ["minor_k", `optional, sum of fitting loss coefficients ΣK, 0 to ${l.minorKMax} (default 0)`],
-      ["temperature_c", "optional, water temperature 0–100 (default 20)"],
-      ["kinematic_viscosity_m2s", `optional, replaces water's viscosity (above 0, at most ${l.kinematicViscosityMax})`],
-    ],
-    request: PIPE_LOSS_REQ,
-    response: `{
-  "velocity_ms": 3.1831,
-  "reynolds": 568410,
-  "relative_roughness": 0.0013,
-  "friction_factor": 0.021393,
-  "friction_method": "colebrook",
-  "regime": "turbulent",
-  "head_loss_m": 5.5259,
-  "friction_loss_m": 5.5259,
-  "minor_loss_m": 0,
-  "velocity_head_m": 0.51659,
-  "pressure_drop_pa": 54136,
-  "fluid": {
-    "name": "Given ν, water density at 15.6 °C",
-    "temperature_c": 15.6,
-    "density_kgm3": 999.01,
-    "kinematic_viscosity_m2s": 1.12e-6,
-    "viscosity_source": "given"
-  },
-  "warnings": []
-}`,
-    notes: [
-      "regime is laminar (Re ≤ 2000), transition (2000–4000, flagged in warnings: friction is uncertain there), turbulent, or no_flow at zero flow.",
-      "pressure_drop_pa = ρ·g₀·head_loss_m with the density of water at temperature_c, also when you give your own viscosity.",
-    ],
-  },
-  {
-    id: "system-curve",
-    path: "/api/v1/calc/system-curve",
-    summary:
-      "The head a pump must give at each flow: static head plus the losses of pipe segments in series. At zero flow the head equals the static head.",
-    fields: [
-      ["static_head_m", `required, discharge level minus suction level, −${l.staticHeadAbsMax} to ${l.staticHeadAbsMax}`],
-      ["segments", `required, 0 to ${l.segments} objects { length_m, diameter_m, roughness_m, minor_k? } with the rules above`],
-      ["flows_m3s", `required, 1 to ${l.flows} flows, each 0 to ${l.flowMax}`],
-      ["temperature_c", "optional, as above (default 20)"],
-      ["kinematic_viscosity_m2s", "optional, as above"],
-    ],
-    request: `{
-  "static_head_m": 10,
-  "segments": [
-    { "length_m": 200, "diameter_m": 0.15, "roughness_m": 0.000045, "minor_k": 5 }
-  ],
-  "flows_m3s": [0, 0.03, 0.06]
-}`,
-    response: `{
-  "points": [
-    { "flow_m3s": 0, "head_m": 10, "pressure_pa": 97891 },
-    { "flow_m3s": 0.03, "head_m": 14.116, "pressure_pa": 138190 },
-    { "flow_m3s": 0.06, "head_m": 25.68, "pressure_pa": 251390 }
-  ],
-  "fluid": { "name": "Water 20 °C", "temperature_c": 20, "density_kgm3": 998.21,
-             "kinematic_viscosity_m2s": 1.0034e-6, "viscosity_source": "water" },
-  "warnings": []
-}`,
-    notes: ["pressure_pa = ρ·g₀·head_m: the pressure rise the pump must add at that flow."],
-  },
-  {
-    id: "operating-point",
-    path: "/api/v1/calc/operating-point",
-    summary: "Where a pump curve meets a system curve.",
-    fields: [
-      ["pump.points", `required, 2 to ${l.pumpPoints} objects { flow_m3s, head_m, efficiency? }, flows strictly increasing, head 0 to ${l.headMax}`],
-      ["pump.points[].efficiency", "optional, a fraction 0–1 (0.75, not 75)"],
-      ["system.static_head_m", "required, as above"],
-      ["system.segments", "required, as above"],
-      ["system.temperature_c", "optional, as above (default 20)"],
-      ["system.kinematic_viscosity_m2s", "optional, as above"],
-    ],
-    request: `{
-  "pump": { "points": [
-    { "flow_m3s": 0,    "head_m": 40 },
-    { "flow_m3s": 0.02, "head_m": 38, "efficiency": 0.55 },
-    { "flow_m3s": 0.04, "head_m": 34, "efficiency": 0.72 },
-    { "flow_m3s": 0.06, "head_m": 27, "efficiency": 0.75 },
-    { "flow_m3s": 0.08, "head_m": 17, "efficiency": 0.65 }
-  ] },
-  "system": {
-    "static_head_m": 10,
-    "segments": [ { "length_m": 200, "diameter_m": 0.15, "roughness_m": 0.000045, "minor_k": 5 } ]
-  }
-}`,
-    response: `{
-  "status": "ok",
-  "flow_m3s": 0.061391,
-  "head_m": 26.395,
-  "efficiency": 0.74907,
-  "message": "Operating point found",
-  "intersections": [ { "flow_m3s": 0.061391, "head_m": 26.395 } ],
-  "fluid": { "name": "Water 20 °C", "temperature_c": 20, "density_kgm3": 998.21,
-             "kinematic_viscosity_m2s": 1.0034e-6, "viscosity_source": "water" },
-  "warnings": []
-}`,
-    notes: [
-      "status ok: the curves cross once.",
-      "status multiple: a drooping curve crosses more than once; every crossing is in intersections and the highest-flow one is reported (the stable one). Running there may still be unstable.",
-      "status no_intersection: the pump's head at its first point is below the system head there (shutoff below static head) and the curves never meet; flow_m3s and head_m are null.",
-      "status beyond_curve: the pump still gives more head than the system needs at the last published point; the real operating point lies beyond the curve data. flow_m3s and head_m are null.",
-      "efficiency is present only when the points carry efficiency covering the operating flow.",
-    ],
-  },
 ];
 
 const ERROR_EXAMPLE = `HTTP/1.1 400 Bad Request
@@ -194,8 +48,7 @@ function Code({ children }: { children: string }) {
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {
-  const { limits, rate } = loaderData;
-  const endpoints = ENDPOINTS(limits);
+  const { limits, rate, endpoints, correlations } = loaderData;
   return (
     <div className="max-w-4xl space-y-8">
       <header className="space-y-2">
@@ -216,7 +69,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
               <a href={`#${e.id}`}>{e.id}</a> ·{" "}
             </span>
           ))}
-          <a href="#account">Account API</a>
+          <a href="#correlations">Correlations</a> · <a href="#account">Account API</a>
         </nav>
       </header>
 
@@ -231,13 +84,18 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
             </tr>
           </thead>
           <tbody>
-            {UNITS.map(([s, u, what]) => (
-              <tr key={s} className="border-b border-slate-100">
-                <td className="py-1 pr-4 font-mono">{s}</td>
-                <td className="py-1 pr-4">{u}</td>
-                <td className="py-1">{what}</td>
+            {UNIT_SUFFIXES.map((u) => (
+              <tr key={u.suffix} className="border-b border-slate-100">
+                <td className="py-1 pr-4 font-mono">{u.suffix}</td>
+                <td className="py-1 pr-4">{u.unit}</td>
+                <td className="py-1">{u.what}</td>
               </tr>
             ))}
+            <tr className="border-b border-slate-100">
+              <td className="py-1 pr-4 font-mono">(none)</td>
+              <td className="py-1 pr-4">—</td>
+              <td className="py-1">dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness</td>
+            </tr>
           </tbody>
         </table>
         <p className="text-sm text-slate-700">
@@ -305,10 +163,10 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
               </tr>
             </thead>
             <tbody>
-              {e.fields.map(([name, rule]) => (
-                <tr key={name} className="border-b border-slate-100 align-top">
-                  <td className="py-1 pr-4 font-mono">{name}</td>
-                  <td className="py-1">{rule}</td>
+              {e.fields.map((f) => (
+                <tr key={f.field} className="border-b border-slate-100 align-top">
+                  <td className="py-1 pr-4 font-mono">{f.field}</td>
+                  <td className="py-1">{f.rule}</td>
                 </tr>
               ))}
             </tbody>
@@ -336,6 +194,36 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           </p>
         </section>
       ))}
+
+      <section id="correlations" className="panel space-y-2">
+        <h2 className="text-xl font-semibold">Friction correlations used</h2>
+        <p className="text-sm text-slate-700">
+          From the engine's correlation registry, with the ranges inside which each is stated valid. Outside them the
+          answer still comes, with a warning in <code>warnings</code>.
+        </p>
+        <table className="w-full text-left text-sm">
+          <thead>
+            <tr className="border-b border-slate-200">
+              <th className="py-1 pr-4">correlation</th>
+              <th className="py-1 pr-4">formula</th>
+              <th className="py-1 pr-4">valid for</th>
+              <th className="py-1">source</th>
+            </tr>
+          </thead>
+          <tbody>
+            {correlations.map((c) => (
+              <tr key={c.name} className="border-b border-slate-100 align-top">
+                <td className="py-1 pr-4">{c.name}</td>
+                <td className="py-1 pr-4 font-mono text-xs">{c.formula}</td>
+                <td className="py-1 pr-4">
+                  Re {c.reynolds[0].toLocaleString("en-GB")}–{c.reynolds[1].toExponential(0)}, ε/D {c.relativeRoughness[0]}–{c.relativeRoughness[1]}
+                </td>
+                <td className="py-1 text-xs">{c.reference}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
 
       <section id="account" className="panel space-y-2">
         <h2 className="text-xl font-semibold">Account API</h2>

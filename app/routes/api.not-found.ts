@@ -1,4 +1,4 @@
-import { notFound } from "~/lib/problem.server";
+import { notFound } from "~/lib/shared/problem.server";
 
 export function loader() {
   return notFound("No API route at this path.");

@@ -1,6 +1,6 @@
 import type { Route } from "./+types/api.stripe.webhook";
-import { handleStripeWebhook } from "~/lib/billing.server";
-import { problem } from "~/lib/problem.server";
+import { handleStripeWebhook } from "~/lib/billing/billing.server";
+import { problem } from "~/lib/shared/problem.server";
 
 // POST /api/stripe/webhook — Stripe's (or the local stand-in's) signed events. No session, no
 // CSRF origin check (exempt in csrf.server.ts): the Stripe-Signature header is the credential.

@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.curves";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import { libraryCurves } from "~/lib/libraries.server";
-import { forbidden, notFound, badRequest } from "~/lib/problem.server";
-import { IdField } from "~/lib/forms.server";
+import { forbidden, notFound, badRequest } from "~/lib/shared/problem.server";
+import { IdField } from "~/lib/shared/forms.server";
 
 // GET /api/v1/libraries/:id/curves[?revision=N] — curve sets with points, SI units
 // (flow m³/s, head m, efficiency 0..1, power W, NPSHr m, impeller diameter m, speed rpm).

@@ -1,10 +1,10 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.models";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import { listModels } from "~/lib/libraries.server";
-import { badRequest } from "~/lib/problem.server";
-import { asProblem } from "~/lib/api-errors.server";
-import { IdField } from "~/lib/forms.server";
+import { badRequest } from "~/lib/shared/problem.server";
+import { asProblem } from "~/lib/shared/api-errors.server";
+import { IdField } from "~/lib/shared/forms.server";
 
 // GET /api/v1/libraries/:id/models — models of the current revision with their curve sets (no points). SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {

@@ -1,11 +1,11 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.upload";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import { analyseStored, getUpload, importUpload, storeUpload, UploadRejected } from "~/lib/libraries.server";
-import { badRequest, problem } from "~/lib/problem.server";
-import { asProblem } from "~/lib/api-errors.server";
+import { badRequest, problem } from "~/lib/shared/problem.server";
+import { asProblem } from "~/lib/shared/api-errors.server";
 import { discardUpload } from "~/lib/uploads.server";
-import { IdField, readFormSafe } from "~/lib/forms.server";
+import { IdField, readFormSafe } from "~/lib/shared/forms.server";
 import { curveNameOfKey } from "~/lib/import";
 
 // POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1";

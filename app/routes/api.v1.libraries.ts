@@ -1,5 +1,5 @@
 import type { Route } from "./+types/api.v1.libraries";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import { listLibraries } from "~/lib/libraries.server";
 
 // GET /api/v1/libraries — every library the caller may see; locked ones are listed without curves.

@@ -1,5 +1,5 @@
 import type { Route } from "./+types/api.v1.me";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 
 // GET /api/v1/me — who the token (or session) speaks for.
 export async function loader({ request }: Route.LoaderArgs) {

@@ -1,10 +1,10 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.preview";
-import { requireApi } from "~/lib/guards.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import { systemWorkbench } from "~/lib/projects.server";
 import { SystemInputSchema } from "~/lib/hydraulics";
-import { badRequest, notFound } from "~/lib/problem.server";
-import { IdField } from "~/lib/forms.server";
+import { badRequest, notFound } from "~/lib/shared/problem.server";
+import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/workbench-view";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with

@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id";
-import { requireApi } from "~/lib/guards.server";
-import { badRequest, problem } from "~/lib/problem.server";
-import { asProblem } from "~/lib/api-errors.server";
-import { IdField } from "~/lib/forms.server";
+import { requireApi } from "~/lib/auth/guards.server";
+import { badRequest, problem } from "~/lib/shared/problem.server";
+import { asProblem } from "~/lib/shared/api-errors.server";
+import { IdField } from "~/lib/shared/forms.server";
 import { systemReadView } from "~/lib/systems-api.server";
 
 // GET /api/v1/systems/:id — the stored system evaluated with its candidates: { input, evaluation, candidates }

@@ -4,7 +4,7 @@
 import { Form, useNavigation } from "react-router";
 import type { Route } from "./+types/dev.mailbox";
 import { Fragment, type ReactNode } from "react";
-import { readFormSafe } from "~/lib/forms.server";
+import { readFormSafe } from "~/lib/shared/forms.server";
 import {
   clearMailbox,
   flushOutbox,
@@ -13,7 +13,7 @@ import {
   mailboxEnabled,
   recentOutbox,
   type MailboxMessage,
-} from "~/lib/mail.server";
+} from "~/lib/mail";
 
 export const meta: Route.MetaFunction = () => [{ title: "Development mailbox · Dutymark" }, { name: "robots", content: "noindex" }];
 

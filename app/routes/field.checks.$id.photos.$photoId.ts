@@ -1,7 +1,7 @@
 import type { Route } from "./+types/field.checks.$id.photos.$photoId";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 import { getPhoto } from "~/lib/fieldchecks.server";
 
 // GET /field/checks/:id/photos/:photoId — one photo, with the content type found from its bytes at upload.

@@ -1,9 +1,9 @@
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
-import { can } from "~/lib/permissions";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
+import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks.server";
 import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";

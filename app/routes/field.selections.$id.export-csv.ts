@@ -1,7 +1,7 @@
 import type { Route } from "./+types/field.selections.$id.export-csv";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 import { checkHistory, historyCsv } from "~/lib/fieldchecks.server";
 
 // GET /field/selections/:id/export.csv — every check of the selection (all versions), SI units.

@@ -1,9 +1,9 @@
 import { data, Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import type { Route } from "./+types/field.selections.$id";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId, readFormSafe } from "~/lib/forms.server";
-import { can } from "~/lib/permissions";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId, readFormSafe } from "~/lib/shared/forms.server";
+import { can } from "~/lib/auth/permissions";
 import {
   checkHistory,
   gradeById,

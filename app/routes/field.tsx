@@ -1,7 +1,7 @@
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
 import { fieldHome } from "~/lib/fieldchecks.server";
 import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 

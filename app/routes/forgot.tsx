@@ -1,10 +1,10 @@
 import * as v from "valibot";
 import { Form, useActionData } from "react-router";
 import type { Route } from "./+types/forgot";
-import { requestPasswordReset } from "~/lib/accounts.server";
-import { clientIp } from "~/lib/auth.server";
-import { EMAIL_TOKEN_TTL } from "~/lib/constants";
-import { Email, invalid, readForm } from "~/lib/forms.server";
+import { requestPasswordReset } from "~/lib/auth/accounts.server";
+import { clientIp } from "~/lib/auth/session.server";
+import { EMAIL_TOKEN_TTL } from "~/lib/shared/constants";
+import { Email, invalid, readForm } from "~/lib/shared/forms.server";
 import { Card, Field, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Dutymark" }];

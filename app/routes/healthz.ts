@@ -1,5 +1,5 @@
 import type { Route } from "./+types/healthz";
-import { health } from "~/lib/health.server";
+import { health } from "~/lib/shared/health.server";
 
 // GET /healthz → { status, db: "ok" | "down", version }; 503 when the database does not answer.
 export async function loader(_: Route.LoaderArgs) {

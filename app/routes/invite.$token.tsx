@@ -1,8 +1,8 @@
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/invite.$token";
-import { acceptInvitation, findInvitation } from "~/lib/accounts.server";
-import { getAuth } from "~/lib/auth.server";
-import { requireUser } from "~/lib/guards.server";
+import { acceptInvitation, findInvitation } from "~/lib/auth/accounts.server";
+import { getAuth } from "~/lib/auth/session.server";
+import { requireUser } from "~/lib/auth/guards.server";
 import { Card, FormError } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Invitation · Dutymark" }];

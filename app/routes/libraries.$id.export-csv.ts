@@ -1,8 +1,8 @@
 import type { Route } from "./+types/libraries.$id.export-csv";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { curvesToCsv, libraryCurves } from "~/lib/libraries.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 
 // GET /libraries/:id/export.csv — the current revision in our own CSV format (fixtures/demo/FORMAT.md).
 export async function loader({ request, params }: Route.LoaderArgs) {

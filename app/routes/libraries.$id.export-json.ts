@@ -1,8 +1,8 @@
 import type { Route } from "./+types/libraries.$id.export-json";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { getLibrary, libraryCurves } from "~/lib/libraries.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 
 // GET /libraries/:id/export.json — the current revision, SI units (flow m³/s, head m, efficiency 0..1, power W, NPSHr m).
 export async function loader({ request, params }: Route.LoaderArgs) {

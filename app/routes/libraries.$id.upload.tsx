@@ -1,8 +1,8 @@
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.upload";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries.server";
-import { readId, readFormSafe } from "~/lib/forms.server";
+import { readId, readFormSafe } from "~/lib/shared/forms.server";
 
 // POST /libraries/:id/upload (multipart, field "file"). A browser form gets a redirect to the
 // mapping step; the drop zone (Accept: application/json) gets { location } or { error }.

@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { importUpload, UploadRejected } from "~/lib/libraries.server";
 import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
@@ -12,7 +12,7 @@ import {
 } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/upload-fix.server";
 import { FixGrid } from "~/components/FixGrid";
-import { readId, readFormSafe } from "~/lib/forms.server";
+import { readId, readFormSafe } from "~/lib/shared/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";

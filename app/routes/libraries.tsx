@@ -1,10 +1,10 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { createLibrary, listLibraries } from "~/lib/libraries.server";
-import { can } from "~/lib/permissions";
-import { invalid, Name, readForm } from "~/lib/forms.server";
+import { can } from "~/lib/auth/permissions";
+import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 

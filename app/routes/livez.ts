@@ -1,5 +1,5 @@
 import type { Route } from "./+types/livez";
-import { liveness } from "~/lib/health.server";
+import { liveness } from "~/lib/shared/health.server";
 
 // GET /livez → { status: "ok", version, uptime }: the process is alive. Never touches the
 // database (that is /healthz, readiness), so a load balancer does not restart a healthy

@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import { Form, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects.$id.share";
-import { requireMember } from "~/lib/guards.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { IdField, invalid, readForm, readId } from "~/lib/forms.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { IdField, invalid, readForm, readId } from "~/lib/shared/forms.server";
 import { listShares, shareProject, unshareProject } from "~/lib/fieldchecks.server";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the

@@ -1,11 +1,11 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects.$id";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { can } from "~/lib/permissions";
-import { invalid, Name, readForm, readId } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { can } from "~/lib/auth/permissions";
+import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { fmtFlow, fmtHead } from "~/components/units";
 

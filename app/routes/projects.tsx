@@ -1,11 +1,11 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { createProject, listProjects } from "~/lib/projects.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { can } from "~/lib/permissions";
-import { invalid, Name, readForm } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { can } from "~/lib/auth/permissions";
+import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];

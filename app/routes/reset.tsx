@@ -1,8 +1,8 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/reset";
-import { resetPassword } from "~/lib/accounts.server";
-import { invalid, NewPassword, readForm } from "~/lib/forms.server";
+import { resetPassword } from "~/lib/auth/accounts.server";
+import { invalid, NewPassword, readForm } from "~/lib/shared/forms.server";
 import { Card, Field, FormError } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Dutymark" }];

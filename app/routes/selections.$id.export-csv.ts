@@ -1,8 +1,8 @@
 import type { Route } from "./+types/selections.$id.export-csv";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { getSelection } from "~/lib/projects.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 import { selectionCsv } from "~/lib/selection-export.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {

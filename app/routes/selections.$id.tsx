@@ -1,9 +1,9 @@
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/selections.$id";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { getSelection } from "~/lib/projects.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
 import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";

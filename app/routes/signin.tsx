@@ -1,8 +1,8 @@
 import * as v from "valibot";
 import { data, Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/signin";
-import { checkCredentials, clientIp, getAuth, startSession } from "~/lib/auth.server";
-import { AnyPassword, Email, invalid, readForm, safeNext } from "~/lib/forms.server";
+import { checkCredentials, clientIp, getAuth, startSession } from "~/lib/auth/session.server";
+import { AnyPassword, Email, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Dutymark" }];

@@ -1,6 +1,6 @@
 import { redirect } from "react-router";
 import type { Route } from "./+types/signout";
-import { endSession } from "~/lib/auth.server";
+import { endSession } from "~/lib/auth/session.server";
 
 export async function loader() {
   throw redirect("/");

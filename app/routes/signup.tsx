@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/signup";
-import { getAuth } from "~/lib/auth.server";
-import { signUp } from "~/lib/accounts.server";
-import { Email, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/forms.server";
+import { getAuth } from "~/lib/auth/session.server";
+import { signUp } from "~/lib/auth/accounts.server";
+import { Email, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Dutymark" }];

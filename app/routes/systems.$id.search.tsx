@@ -1,11 +1,11 @@
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
-import { requireMember } from "~/lib/guards.server";
+import { requireMember } from "~/lib/auth/guards.server";
 import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
-import { viewerOf } from "~/lib/viewer.server";
-import { readId, formId, readFormSafe } from "~/lib/forms.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
-import { can } from "~/lib/permissions";
+import { can } from "~/lib/auth/permissions";
 import { toSI } from "~/engine";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
 import { FormError } from "~/components/forms";

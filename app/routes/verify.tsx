@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import { data, Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/verify";
-import { verifyEmailUser } from "~/lib/accounts.server";
-import { startSession } from "~/lib/auth.server";
-import { readForm, safeNext } from "~/lib/forms.server";
+import { verifyEmailUser } from "~/lib/auth/accounts.server";
+import { startSession } from "~/lib/auth/session.server";
+import { readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, FormError, Notice } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Confirm your address · Dutymark" }];

@@ -2,11 +2,11 @@ import { useEffect, useRef } from "react";
 import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData, useNavigation, useRevalidator } from "react-router";
 import type { Route } from "./+types/workspace.billing";
-import { requireMember } from "~/lib/guards.server";
-import { can } from "~/lib/permissions";
-import { invalid, readForm } from "~/lib/forms.server";
+import { requireMember } from "~/lib/auth/guards.server";
+import { can } from "~/lib/auth/permissions";
+import { invalid, readForm } from "~/lib/shared/forms.server";
 import { listLibraries } from "~/lib/libraries.server";
-import { viewerOf } from "~/lib/viewer.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
 import {
   AlreadySubscribed,
   billingErrorMessage,
@@ -18,8 +18,9 @@ import {
   setCancelAtPeriodEnd,
   startCheckout,
   type InvoiceRow,
-} from "~/lib/billing.server";
+} from "~/lib/billing/billing.server";
 import { FormError, Notice } from "~/components/forms";
+import { settings } from "~/lib/shared/env.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -66,7 +67,7 @@ export async function action({ request }: Route.ActionArgs) {
   const m = await requireMember(request, "billing.manage");
   const r = await readForm(request, Intent);
   if (!r.ok) return invalid(r.errors);
-  const appUrl = (process.env.APP_URL ?? new URL(request.url).origin).replace(/\/$/, "");
+  const appUrl = settings().appUrl ?? new URL(request.url).origin;
   try {
     switch (r.value.intent) {
       case "upgrade": {

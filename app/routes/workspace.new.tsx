@@ -1,9 +1,9 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData } from "react-router";
 import type { Route } from "./+types/workspace.new";
-import { createWorkspace } from "~/lib/accounts.server";
-import { requireUser } from "~/lib/guards.server";
-import { invalid, Name, readForm } from "~/lib/forms.server";
+import { createWorkspace } from "~/lib/auth/accounts.server";
+import { requireUser } from "~/lib/auth/guards.server";
+import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Card, Field } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "New workspace · Dutymark" }];

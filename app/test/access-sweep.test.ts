@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq, isNull } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, fieldCheckPhotos, fieldChecks, invitations, memberships, projectShares, sessions, workspaces } from "@db/schema";
-import { createApiToken, invite } from "~/lib/accounts.server";
+import { createApiToken, invite } from "~/lib/auth/accounts.server";
 import { call, makeMember, makeWorkspace, type TestMember } from "./harness";
 import * as accountRoute from "~/routes/account";
 import * as workspaceRoute from "~/routes/workspace";

@@ -5,10 +5,10 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, memberships, outbox, sessions, signInAttempts, users } from "@db/schema";
-import { acceptInvitation, createApiToken, FORGOT_LIMITS, invite, requestPasswordReset, resetPassword } from "~/lib/accounts.server";
-import { checkCredentials, deviceId, THROTTLE, throttleDelaySeconds } from "~/lib/auth.server";
-import { flushOutbox } from "~/lib/mail.server";
-import { requireApi } from "~/lib/guards.server";
+import { acceptInvitation, createApiToken, FORGOT_LIMITS, invite, requestPasswordReset, resetPassword } from "~/lib/auth/accounts.server";
+import { checkCredentials, deviceId, THROTTLE, throttleDelaySeconds } from "~/lib/auth/session.server";
+import { flushOutbox } from "~/lib/mail/outbox.server";
+import { requireApi } from "~/lib/auth/guards.server";
 import * as signupRoute from "~/routes/signup";
 import * as forgotRoute from "~/routes/forgot";
 import * as accountRoute from "~/routes/account";
@@ -35,7 +35,7 @@ describe("an attacker who signs up with someone else's address", () => {
     expect(u.emailVerified).toBe(false);
     const [ms] = await db().select().from(memberships).where(eq(memberships.userId, u.id));
     // Even signed in (a session made by hand), neither the route nor the service hands out a token.
-    const { startSession } = await import("~/lib/auth.server");
+    const { startSession } = await import("~/lib/auth/session.server");
     const cookie = (await startSession(u.id, new Request(BASE))).split(";")[0];
     const t = await call(accountRoute.action as never, { path: "/account", cookie, form: { intent: "create-token", name: "door", scope: "write" } });
     expect(t.status).toBe(403);
@@ -162,7 +162,7 @@ describe("sign-in throttling", () => {
 describe("sessions and devices", () => {
   test("the account page shows opaque device ids, never a session id; revoking by device id works, by session id does not", async () => {
     const m = await makeMember("engineer");
-    const { startSession } = await import("~/lib/auth.server");
+    const { startSession } = await import("~/lib/auth/session.server");
     const other = (await startSession(m.userId, new Request(BASE))).split(";")[0];
     const otherId = other.split("=")[1];
     const page = await call(accountRoute.loader as never, { path: "/account", cookie: m.cookie });
@@ -178,7 +178,7 @@ describe("sessions and devices", () => {
   });
 
   test("the session cookie lives as long as the session (30 days), not 400", async () => {
-    const { startSession } = await import("~/lib/auth.server");
+    const { startSession } = await import("~/lib/auth/session.server");
     const m = await makeMember("viewer");
     const cookie = await startSession(m.userId, new Request(BASE));
     expect(cookie).toMatch(/Max-Age=2592000/i); // 30 d × 86 400 s

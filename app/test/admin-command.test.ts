@@ -4,8 +4,8 @@ import { afterAll, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { memberships, users, workspaces } from "@db/schema";
-import { checkCredentials } from "~/lib/auth.server";
-import { requireApi } from "~/lib/guards.server";
+import { checkCredentials } from "~/lib/auth/session.server";
+import { requireApi } from "~/lib/auth/guards.server";
 
 afterAll(() => closeDb());
 const admin = (...args: string[]) => spawnSync(process.execPath, ["--import", "tsx", "app/cli/admin.ts", ...args], { encoding: "utf8", env: process.env });

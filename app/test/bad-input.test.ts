@@ -1,5 +1,5 @@
 // Bad input to the account forms: oversized and malformed fields get a 4xx with a message, never a 500,
-// and change nothing (our product rules; valibot limits in app/lib/forms.server.ts).
+// and change nothing (our product rules; valibot limits in app/lib/shared/forms.server.ts).
 import { afterAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";

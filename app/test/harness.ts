@@ -4,9 +4,9 @@ import net from "node:net";
 import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { memberships, users, workspaces } from "@db/schema";
-import { hashPassword, startSession } from "~/lib/auth.server";
-import { newUserId, slugify } from "~/lib/accounts.server";
-import type { Role } from "~/lib/permissions";
+import { hashPassword, startSession } from "~/lib/auth/session.server";
+import { newUserId, slugify } from "~/lib/auth/accounts.server";
+import type { Role } from "~/lib/auth/permissions";
 
 export const BASE = "http://127.0.0.1:3999";
 let seq = 0;

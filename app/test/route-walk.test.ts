@@ -11,7 +11,7 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { fieldCheckPhotos, libraries } from "@db/schema";
 import routeConfig from "~/routes";
-import { createApiToken, invite } from "~/lib/accounts.server";
+import { createApiToken, invite } from "~/lib/auth/accounts.server";
 import { analyseStored, createLibrary, curvesOfRevisions, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";

@@ -7,7 +7,7 @@ import { existsSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createApiToken } from "~/lib/accounts.server";
+import { createApiToken } from "~/lib/auth/accounts.server";
 import { freePort, makeMember } from "./harness";
 
 const ROOT = path.resolve(__dirname, "../..");
@@ -144,4 +144,24 @@ describe.skipIf(!built)("body limits on the bytes read", () => {
     });
     expect(r).toBe(400);
   });
+});
+
+describe.skipIf(!built)("settings checked at start (app/lib/shared/env.server.ts)", () => {
+  test("a bad setting stops the server with one line per problem, before it listens", async () => {
+    const p = await freePort();
+    const child = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+      cwd: ROOT,
+      env: { ...process.env, PORT: String(p), HOST: "127.0.0.1", NODE_ENV: "production", APP_URL: "ftp://dutymark.example", TRUST_PROXY: "yes" },
+      stdio: ["ignore", "ignore", "pipe"],
+    });
+    let stderr = "";
+    child.stderr?.on("data", (b) => (stderr += b));
+    const code = await new Promise<number | null>((resolve) => child.once("exit", resolve));
+    expect(code).toBe(1);
+    expect(stderr).toContain("Dutymark cannot start: 2 settings are wrong");
+    expect(stderr).toContain("APP_URL must be a URL starting with http:// or https://");
+    expect(stderr).toContain("TRUST_PROXY must be 0 or 1");
+    expect(stderr).not.toMatch(/\n\s+at /); // no stack trace, just the problems
+    expect(await fetch(`http://127.0.0.1:${p}/livez`).then((r) => r.status).catch(() => "refused")).toBe("refused");
+  }, 30_000);
 });

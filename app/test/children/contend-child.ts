@@ -4,8 +4,8 @@
 //   MODE=ratelimit BUCKET=… HITS=n  → {"hits":[…]}  (the count each hit saw)
 //   MODE=outbox                     → {"sent":n,"failed":n,"due":n}  (SMTP_URL: where to deliver)
 import { closeDb } from "@db/client.server";
-import { hitRateLimit } from "~/lib/ratelimit.server";
-import { flushOutbox } from "~/lib/mail.server";
+import { hitRateLimit } from "~/lib/shared/ratelimit.server";
+import { flushOutbox } from "~/lib/mail/outbox.server";
 
 const startAt = Number(process.env.START_AT ?? 0);
 await new Promise((r) => setTimeout(r, Math.max(0, startAt - Date.now())));

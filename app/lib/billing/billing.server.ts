@@ -9,8 +9,10 @@
 import Stripe from "stripe";
 import { and, eq, gt, inArray, sql } from "drizzle-orm";
 import { db, withTransaction, type Db } from "@db/client.server";
+import { forgetTokens } from "../auth/token-cache.server";
 import { stripeEvents, workspaces } from "@db/schema";
-import type { WorkspaceInfo } from "./guards.server";
+import type { WorkspaceInfo } from "../auth/guards.server";
+import { settings } from "../shared/env.server";
 
 export type Plan = WorkspaceInfo["plan"];
 
@@ -26,12 +28,8 @@ export const DEFAULT_PRICE_ID = "price_dutymark_network_monthly";
 export type StripeConfig = { secretKey: string; webhookSecret: string; priceId: string; apiBase: string | null };
 
 export function stripeConfig(env: NodeJS.ProcessEnv = process.env): StripeConfig {
-  return {
-    secretKey: env.STRIPE_SECRET_KEY ?? "",
-    webhookSecret: env.STRIPE_WEBHOOK_SECRET ?? "",
-    priceId: env.STRIPE_PRICE_ID || DEFAULT_PRICE_ID,
-    apiBase: env.STRIPE_API_BASE || null,
-  };
+  const s = settings(env).stripe;
+  return { ...s, priceId: s.priceId ?? DEFAULT_PRICE_ID };
 }
 
 /** SDK options: with STRIPE_API_BASE the SDK talks to that host (the stand-in); without, the SDK's defaults (Stripe). */
@@ -210,6 +208,7 @@ export async function handleStripeWebhook(rawBody: string, signature: string | n
   }
   const target = await locate(event);
   try {
+    // A plan change must reach cached API callers (token-cache.server.ts) once committed.
     return await withTransaction(async (tx) => {
       // Lock order: the workspace row first (serialises events of one workspace), then the event id.
       const [w] = target ? await tx.select().from(workspaces).where(eq(workspaces.id, target.workspaceId)).for("update") : [];
@@ -218,7 +217,7 @@ export async function handleStripeWebhook(rawBody: string, signature: string | n
       if (!target || !w) return { status: 200, body: { received: true, result: "no workspace for this event" } };
       const result = await apply(tx, event, target, w);
       return { status: 200, body: { received: true, result } };
-    });
+    }).finally(forgetTokens);
   } catch (e) {
     if (isDuplicateKey(e)) return { status: 200, body: { received: true, result: "already handled" } };
     throw e;

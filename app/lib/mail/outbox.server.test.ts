@@ -8,7 +8,7 @@ import os from "node:os";
 import path from "node:path";
 import { closeDb, db } from "@db/client.server";
 import { outbox } from "@db/schema";
-import { startMailbox, type RunningMailbox } from "../../fixtures/smtp/server";
+import { startMailbox, type RunningMailbox } from "../../../fixtures/smtp/server";
 import {
   MAX_ATTEMPTS,
   MailInputError,
@@ -18,8 +18,8 @@ import {
   listMailbox,
   mailboxEnabled,
   sendMail,
-} from "./mail.server";
-import { fieldCheckMail } from "./mail-templates";
+} from ".";
+import { fieldCheckMail } from "./templates";
 
 const tag = `mt${Date.now().toString(36)}`;
 const addr = (name: string) => `${name}.${tag}@example.test`;

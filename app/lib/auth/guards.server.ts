@@ -3,10 +3,11 @@ import { data, redirect } from "react-router";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { apiTokens, memberships, users, workspaces } from "@db/schema";
-import { getAuth, type Auth } from "./auth.server";
+import { getAuth, type Auth } from "./session.server";
 import { can, READ_ONLY_PERMISSIONS, type Permission, type Role } from "./permissions";
-import { hashSecret } from "./tokens.server";
-import { forbidden, unauthorized } from "./problem.server";
+import { hashSecret } from "./secrets.server";
+import { forbidden, unauthorized } from "../shared/problem.server";
+import { cachedToken, rememberToken } from "./token-cache.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
 export type Member = Auth & {
@@ -77,6 +78,9 @@ export async function requireApi(request: Request, permission: Permission): Prom
   if (authz) {
     const m = /^Bearer\s+([A-Za-z0-9_\-.]{10,200})$/i.exec(authz.trim());
     if (!m) throw unauthorized("Malformed Authorization header.");
+    const tokenHash = hashSecret(m[1]);
+    const known = cachedToken(tokenHash);
+    if (known) return authorise(known.caller, permission);
     const [row] = await db()
       .select({
         id: apiTokens.id,
@@ -89,13 +93,14 @@ export async function requireApi(request: Request, permission: Permission): Prom
       .from(apiTokens)
       .innerJoin(memberships, and(eq(memberships.userId, apiTokens.userId), eq(memberships.workspaceId, apiTokens.workspaceId)))
       .innerJoin(workspaces, eq(workspaces.id, apiTokens.workspaceId))
-      .where(and(eq(apiTokens.tokenHash, hashSecret(m[1])), isNull(apiTokens.revokedAt)));
+      .where(and(eq(apiTokens.tokenHash, tokenHash), isNull(apiTokens.revokedAt)));
     if (!row) throw unauthorized("Unknown or revoked API token.");
     // "Last used" to the minute: one write per token per minute, not one per request.
     if (!row.lastUsedAt || Date.now() - row.lastUsedAt.getTime() > 60_000) {
       await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
     }
     caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope };
+    rememberToken(tokenHash, { caller, tokenId: row.id, lastUsedAt: Date.now() });
   } else {
     const auth = await getAuth(request);
     if (!auth) throw unauthorized();
@@ -104,6 +109,10 @@ export async function requireApi(request: Request, permission: Permission): Prom
     const { role, ...workspace } = current;
     caller = { userId: auth.user.id, workspace, role, via: "session", scope: "write" };
   }
+  return authorise(caller, permission);
+}
+
+function authorise(caller: ApiCaller, permission: Permission): ApiCaller {
   if (caller.scope === "read" && !READ_ONLY_PERMISSIONS.has(permission)) {
     throw forbidden("This token has read scope; this call needs a read-write token.");
   }

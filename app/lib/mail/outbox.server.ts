@@ -15,6 +15,7 @@ import nodemailer, { type Transporter } from "nodemailer";
 import { and, desc, eq, isNull, lt, sql } from "drizzle-orm";
 import { db, retryOnConflict } from "@db/client.server";
 import { outbox } from "@db/schema";
+import { DEFAULT_MAIL_FROM, settings } from "../shared/env.server";
 
 export type MailMessage = { to: string; subject: string; text: string; html: string };
 export type SendOutcome = {
@@ -27,7 +28,7 @@ export type SendOutcome = {
 };
 export type FlushOutcome = { due: number; sent: number; failed: number; held: boolean };
 
-export const DEFAULT_FROM = "Dutymark <no-reply@dutymark.localhost>";
+export const DEFAULT_FROM = DEFAULT_MAIL_FROM;
 /**
  * When an unsent row is due again, in seconds after it was created, indexed by attempts made so
  * far: the first try is immediate, retries spread over about eight hours. After the last entry
@@ -53,11 +54,11 @@ function logOnce(key: string, message: string) {
 }
 
 export function mailFrom(): string {
-  return process.env.MAIL_FROM?.trim() || DEFAULT_FROM;
+  return settings().mailFrom;
 }
 
 function smtpUrl(): string | null {
-  return process.env.SMTP_URL?.trim() || null;
+  return settings().smtpUrl;
 }
 
 let transport: { url: string; t: Transporter } | null = null;
@@ -197,7 +198,8 @@ export async function sendMail(message: MailMessage): Promise<SendOutcome> {
  */
 export async function queueMail(message: MailMessage): Promise<{ id: number }> {
   const { id, m } = await writeToOutbox(message);
-  if (!(process.env.VITEST && process.env.MAIL_FLUSH_INTERVAL_MS === undefined)) {
+  const s = settings();
+  if (!(s.underVitest && s.mailFlushIntervalMs === null)) {
     const url = smtpUrl();
     if (url) {
       setImmediate(() => {
@@ -276,10 +278,10 @@ let timer: ReturnType<typeof setInterval> | null = null;
 /** Starts the periodic flusher once per process (unref'd: it never keeps the process alive). */
 export function ensureOutboxFlusher(): void {
   if (timer) return;
-  const configured = process.env.MAIL_FLUSH_INTERVAL_MS;
-  if (process.env.VITEST && configured === undefined) return;
-  const every = Number(configured ?? 30_000);
-  if (!Number.isFinite(every) || every <= 0) return;
+  const s = settings();
+  if (s.underVitest && s.mailFlushIntervalMs === null) return;
+  const every = s.mailFlushIntervalMs ?? 30_000;
+  if (every <= 0) return;
   timer = setInterval(() => {
     flushOutbox().catch((err) => logOnce(`flush:${describeError(err)}`, `outbox flush failed: ${describeError(err)}`));
   }, every);
@@ -306,69 +308,4 @@ export async function recentOutbox(limit = 20) {
     .from(outbox)
     .orderBy(desc(outbox.id))
     .limit(limit);
-}
-
-// ---------------------------------------------------------------------------------------------
-// The SMTP stand-in's mailbox (fixtures/smtp/server.ts), read over its HTTP API.
-
-export type MailboxMessage = {
-  id: string;
-  receivedAt: string;
-  envelope: { from: string; to: string[] };
-  from: string;
-  to: string[];
-  subject: string;
-  date: string | null;
-  messageId: string | null;
-  text: string | null;
-  html: string | null;
-  links: string[];
-  size: number;
-};
-export type MailboxMessageFull = MailboxMessage & { headers: Record<string, string>; raw: string };
-
-/** The development mailbox is shown outside production, or in production when explicitly enabled. */
-/**
- * The dev mailbox shows what the local SMTP stand-in caught: only when the stand-in is what receives
- * mail (MAILBOX_API_URL, set by npm start / dev / test), and outside production unless asked for
- * (npm start asks with MAILBOX_ENABLED=1). With a real SMTP_URL there is no stand-in, so never.
- */
-export function mailboxEnabled(): boolean {
-  if (!mailboxApiUrl()) return false;
-  return (
-    process.env.NODE_ENV !== "production" || process.env.DUTYMARK_TEST_MODE === "1" || process.env.MAILBOX_ENABLED === "1"
-  );
-}
-
-export function mailboxApiUrl(): string | null {
-  return process.env.MAILBOX_API_URL?.trim().replace(/\/+$/, "") || null;
-}
-
-async function mailboxFetch(pathAndQuery: string, init?: RequestInit): Promise<Response> {
-  const base = mailboxApiUrl();
-  if (!base) throw new Error("MAILBOX_API_URL is not set (npm run dev and npm test start the SMTP stand-in and set it)");
-  return fetch(`${base}${pathAndQuery}`, { ...init, signal: AbortSignal.timeout(3_000) });
-}
-
-/** Messages the stand-in holds, newest first; `to` keeps those addressed to that address. */
-export async function listMailbox(opts: { to?: string; limit?: number } = {}): Promise<MailboxMessage[]> {
-  const q = new URLSearchParams();
-  if (opts.to) q.set("to", opts.to);
-  if (opts.limit) q.set("limit", String(opts.limit));
-  const res = await mailboxFetch(`/messages${q.size ? `?${q}` : ""}`);
-  if (!res.ok) throw new Error(`mailbox answered ${res.status}`);
-  return ((await res.json()) as { messages: MailboxMessage[] }).messages;
-}
-
-export async function getMailboxMessage(id: string): Promise<MailboxMessageFull | null> {
-  const res = await mailboxFetch(`/messages/${encodeURIComponent(id)}`);
-  if (res.status === 404) return null;
-  if (!res.ok) throw new Error(`mailbox answered ${res.status}`);
-  return (await res.json()) as MailboxMessageFull;
-}
-
-export async function clearMailbox(): Promise<number> {
-  const res = await mailboxFetch("/messages", { method: "DELETE" });
-  if (!res.ok) throw new Error(`mailbox answered ${res.status}`);
-  return ((await res.json()) as { deleted: number }).deleted;
 }

@@ -1,5 +1,5 @@
 import { connectionLostWithin, dbAlive } from "@db/client.server";
-import pkg from "../../package.json";
+import pkg from "../../../package.json";
 
 /** Readiness: the process answers and the database does (GET /healthz). */
 export async function health() {

@@ -1,6 +1,6 @@
 // The one permission map: role × action → allowed. Shared by the server (guards decide) and the UI
 // (which only hides what a role cannot do). Tests sweep the whole table (permissions.test.ts).
-import { ROLES, type Role } from "./constants";
+import { ROLES, type Role } from "../shared/constants";
 export { ROLES, type Role };
 
 export const ROLE_LABELS: Record<Role, string> = {

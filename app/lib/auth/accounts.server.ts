@@ -4,18 +4,20 @@ import { and, eq, gt, isNull, ne, count } from "drizzle-orm";
 import { db, withTransaction, type Db } from "@db/client.server";
 import { apiTokens, emailTokens, invitations, memberships, sessions, signInAttempts, users, workspaces } from "@db/schema";
 import { data } from "react-router";
-import { hashPassword, normaliseEmail } from "./auth.server";
-import { hashSecret, newSecret } from "./tokens.server";
-import { queueMail } from "./mail.server";
-import { hitRateLimit } from "./ratelimit.server";
-import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "./mail-templates";
+import { hashPassword, normaliseEmail } from "./session.server";
+import { hashSecret, newSecret } from "./secrets.server";
+import { queueMail } from "../mail/outbox.server";
+import { hitRateLimit } from "../shared/ratelimit.server";
+import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "../mail/templates";
 import type { Role } from "./permissions";
 
-import { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS } from "./constants";
+import { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS } from "../shared/constants";
+import { settings } from "../shared/env.server";
+import { forgetTokens } from "./token-cache.server";
 export { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS };
 
 export function appUrl(): string {
-  return (process.env.APP_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
+  return settings().appUrl ?? "http://127.0.0.1:3000";
 }
 
 export function slugify(name: string): string {
@@ -53,6 +55,9 @@ function passwordChangedMail(tokens: number, forgotUrl: string) {
   const html = `<p>Hello,</p><p>The password of your Dutymark account was just changed with a reset link. ${escapeHtml(what)}</p><p>If it was not you, <a href="${escapeHtml(forgotUrl)}">choose a new password now</a>.</p>`;
   return { subject: "Your Dutymark password was changed", text, html };
 }
+
+/** Membership and token changes clear the verified-token cache once committed (token-cache.server.ts). */
+const clearingTokens = <T>(work: Promise<T>): Promise<T> => work.finally(forgetTokens);
 
 const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
 
@@ -187,6 +192,7 @@ export async function resetPassword(secret: string, password: string): Promise<b
     if (u) await tx.delete(signInAttempts).where(and(eq(signInAttempts.emailKey, u.email), eq(signInAttempts.success, false)));
     return { email: u?.email, revoked };
   });
+  forgetTokens();
   if (!done) return false;
   if (done.email) await queueMail({ to: done.email, ...passwordChangedMail(done.revoked, `${appUrl()}/forgot`) });
   return true;
@@ -291,7 +297,7 @@ export async function findInvitation(secret: string) {
  */
 export async function acceptInvitation(secret: string, userId: string): Promise<{ workspaceId: number } | null> {
   if (!secret || secret.length > 200) return null;
-  return withTransaction(async (tx) => {
+  return clearingTokens(withTransaction(async (tx) => {
     const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashSecret(secret)));
     if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt <= new Date()) return null;
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
@@ -307,7 +313,7 @@ export async function acceptInvitation(secret: string, userId: string): Promise<
     await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
     await tx.update(users).set({ currentWorkspaceId: inv.workspaceId }).where(eq(users.id, userId));
     return { workspaceId: inv.workspaceId };
-  });
+  }));
 }
 
 async function adminCount(tx: Db, workspaceId: number): Promise<number> {
@@ -322,24 +328,24 @@ export type MemberChange = "ok" | "not-found" | "last-admin";
 
 /** Changes a member's role; a workspace always keeps at least one admin. */
 export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
-  return withTransaction(async (tx) => {
+  return clearingTokens(withTransaction(async (tx) => {
     const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
     if (!m) return "not-found";
     if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
     await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
     return "ok";
-  });
+  }));
 }
 
 export async function removeMember(workspaceId: number, membershipId: number): Promise<MemberChange> {
-  return withTransaction(async (tx) => {
+  return clearingTokens(withTransaction(async (tx) => {
     const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
     if (!m) return "not-found";
     if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
     await tx.delete(memberships).where(eq(memberships.id, m.id));
     await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
     return "ok";
-  });
+  }));
 }
 
 export const API_TOKEN_PREFIX = "dmk_";
@@ -367,6 +373,7 @@ export async function revokeApiToken(userId: string, tokenId: number): Promise<b
     .update(apiTokens)
     .set({ revokedAt: new Date() })
     .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
+  forgetTokens();
   return affected(r) === 1;
 }
 

@@ -9,7 +9,7 @@ import {
   passwordResetMail,
   verifyAddressMail,
   workspaceInviteMail,
-} from "./mail-templates";
+} from "./templates";
 
 const LINK = "https://dutymark.localhost/verify?token=abc&next=%2Fprojects";
 const HOSTILE = `<script>alert("x")</script> & 'Co'`;

@@ -3,6 +3,8 @@
 // is refused. Bearer-token API calls carry no ambient credentials and are exempt — but only when
 // no session cookie rides along (a cookie is what a forged cross-site request would bring) — as is
 // the Stripe webhook, which is verified by its signature instead.
+import { settings } from "../shared/env.server";
+
 const SAFE = new Set(["GET", "HEAD", "OPTIONS"]);
 const EXEMPT_PATHS = ["/api/stripe/webhook"];
 // The public calculators (/api/v1/calc/<name>) read no cookies and change nothing: anonymous
@@ -17,7 +19,8 @@ export function csrfRefusal(request: Request): string | null {
   const hasSessionCookie = /(?:^|;)\s*dm_session=[^;\s]/.test(request.headers.get("cookie") ?? "");
   if (/^bearer\s+/i.test(authz) && !hasSessionCookie) return null;
   const allowed = new Set([url.origin]);
-  if (process.env.APP_URL) allowed.add(new URL(process.env.APP_URL).origin);
+  const appUrl = settings().appUrl;
+  if (appUrl) allowed.add(new URL(appUrl).origin);
   const origin = request.headers.get("origin");
   if (origin) return allowed.has(origin) ? null : `Cross-site request refused (origin ${origin}).`;
   const site = request.headers.get("sec-fetch-site");

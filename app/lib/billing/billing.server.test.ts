@@ -10,7 +10,7 @@ import Stripe from "stripe";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { stripeEvents, workspaces } from "@db/schema";
-import { startStripeStandIn, type StandIn } from "../../fixtures/stripe/server";
+import { startStripeStandIn, type StandIn } from "../../../fixtures/stripe/server";
 import { call, makeMember, type TestMember } from "~/test/harness";
 import * as billingRoute from "~/routes/workspace.billing";
 import * as webhookRoute from "~/routes/api.stripe.webhook";

@@ -17,7 +17,7 @@ import {
   signUp,
   verifyEmail,
 } from "./accounts.server";
-import { checkCredentials, THROTTLE } from "./auth.server";
+import { checkCredentials, THROTTLE } from "./session.server";
 import { requireApi, requireMember } from "./guards.server";
 import { csrfRefusal } from "./csrf.server";
 import { BASE, makeMember, makeWorkspace, userRow } from "~/test/harness";

@@ -5,13 +5,13 @@ import { hash, verify } from "@node-rs/argon2";
 import { and, count, eq, gt, max } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { sessions, signInAttempts, users } from "@db/schema";
-import { hashSecret } from "./tokens.server";
+import { hashSecret } from "./secrets.server";
+import { settings } from "../shared/env.server";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
 
 export function cookieSecure(): boolean {
-  if (process.env.COOKIE_SECURE) return process.env.COOKIE_SECURE === "1";
-  return (process.env.APP_URL ?? "").startsWith("https://");
+  return settings().cookieSecure;
 }
 
 function makeLucia() {

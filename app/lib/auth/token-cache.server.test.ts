@@ -1,0 +1,63 @@
+// The verified-token cache (token-cache.server.ts) against the real MariaDB: a token is looked up once
+// per window, and every change made through the services takes effect at once in this process.
+import { afterAll, describe, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { apiTokens, memberships } from "@db/schema";
+import { makeMember } from "~/test/harness";
+import { changeRole, createApiToken, removeMember, revokeApiToken } from "./accounts.server";
+import { requireApi } from "./guards.server";
+import { TOKEN_CACHE_MS, cachedToken, forgetTokens, rememberToken } from "./token-cache.server";
+
+afterAll(() => closeDb());
+
+const call = (token: string) => new Request("http://127.0.0.1/api/v1/me", { headers: { authorization: `Bearer ${token}` } });
+const status = (p: Promise<unknown>) => p.then(() => 200, (e: unknown) => (e instanceof Response ? e.status : Promise.reject(e)));
+
+describe("verified API tokens are remembered for a few seconds", () => {
+  test("a token revoked behind the services' back stays trusted only until the cache is cleared (the documented window)", async () => {
+    const m = await makeMember("engineer");
+    const { id, token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "cache", scope: "read" });
+    expect(await status(requireApi(call(token), "library.read"))).toBe(200);
+    // Straight to the table, as another app process would: this process still trusts its cached answer…
+    await db().update(apiTokens).set({ revokedAt: new Date() }).where(eq(apiTokens.id, id));
+    expect(await status(requireApi(call(token), "library.read"))).toBe(200);
+    // …until its window ends (simulated by clearing), then the database answers again.
+    forgetTokens();
+    expect(await status(requireApi(call(token), "library.read"))).toBe(401);
+  });
+
+  test("revoking through the service takes effect at once", async () => {
+    const m = await makeMember("engineer");
+    const { id, token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "cache", scope: "read" });
+    expect(await status(requireApi(call(token), "library.read"))).toBe(200);
+    expect(await revokeApiToken(m.userId, id)).toBe(true);
+    expect(await status(requireApi(call(token), "library.read"))).toBe(401);
+  });
+
+  test("a role change and a removal take effect at once", async () => {
+    const admin = await makeMember("admin");
+    const m = await makeMember("engineer", admin.workspaceId);
+    const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "cache", scope: "write" });
+    expect(await status(requireApi(call(token), "project.write"))).toBe(200);
+    const [row] = await db().select({ id: memberships.id }).from(memberships).where(eq(memberships.userId, m.userId));
+    expect(await changeRole(m.workspaceId, row.id, "viewer")).toBe("ok");
+    expect(await status(requireApi(call(token), "project.write"))).toBe(403); // viewers may not write projects (permissions.ts)
+    expect(await removeMember(m.workspaceId, row.id)).toBe("ok");
+    expect(await status(requireApi(call(token), "library.read"))).toBe(401);
+  });
+
+  test("scope and role are still checked on a cached caller", async () => {
+    const m = await makeMember("engineer");
+    const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "cache", scope: "read" });
+    expect(await status(requireApi(call(token), "library.read"))).toBe(200);
+    expect(await status(requireApi(call(token), "project.write"))).toBe(403); // read scope, cached or not
+  });
+
+  test("entries expire after TOKEN_CACHE_MS", () => {
+    const caller = { userId: "u", workspace: { id: 1, name: "w", slug: "w", plan: "free" as const }, role: "engineer" as const, via: "token" as const, scope: "read" as const };
+    rememberToken("h-expiry", { caller, tokenId: 1, lastUsedAt: 0 }, 1_000);
+    expect(cachedToken("h-expiry", 1_000 + TOKEN_CACHE_MS - 1)).not.toBeNull();
+    expect(cachedToken("h-expiry", 1_000 + TOKEN_CACHE_MS)).toBeNull();
+  });
+});
