@@ -2,4 +2,5 @@
 // mailbox client (the SMTP stand-in's HTTP API).
 export * from "./outbox.server";
 export * from "./mailbox.server";
+export * from "./mailbox-page.server";
 export * from "./templates";

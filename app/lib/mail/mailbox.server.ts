@@ -2,21 +2,8 @@
 // mailbox page. Configuration: MAILBOX_API_URL (set by npm start / dev / test).
 import { settings } from "../shared/env.server";
 
-export type MailboxMessage = {
-  id: string;
-  receivedAt: string;
-  envelope: { from: string; to: string[] };
-  from: string;
-  to: string[];
-  subject: string;
-  date: string | null;
-  messageId: string | null;
-  text: string | null;
-  html: string | null;
-  links: string[];
-  size: number;
-};
-export type MailboxMessageFull = MailboxMessage & { headers: Record<string, string>; raw: string };
+export type { MailboxMessage, MailboxMessageFull } from "./mailbox-message";
+import type { MailboxMessage, MailboxMessageFull } from "./mailbox-message";
 
 /**
  * The dev mailbox shows what the local SMTP stand-in caught: only when the stand-in is what receives

@@ -1,0 +1,43 @@
+// The latest outbox rows on the development mailbox page: sent, or waiting with the last error.
+export type OutboxRowView = { id: number; toAddress: string; subject: string; attempts: number; lastError: string | null; sentAt: string | null; createdAt: string };
+
+/** "2026-12-01 22:54:55 UTC": the same on server and client, so hydration matches. */
+const utc = (iso: string | null) => (iso ? `${iso.replace("T", " ").slice(0, 19)} UTC` : "—");
+
+export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <thead className="text-xs uppercase tracking-wide text-slate-500">
+          <tr>
+            <th className="py-1 pr-3 font-semibold">#</th>
+            <th className="py-1 pr-3 font-semibold">To</th>
+            <th className="py-1 pr-3 font-semibold">Subject</th>
+            <th className="py-1 pr-3 font-semibold">Written</th>
+            <th className="py-1 pr-3 font-semibold">State</th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-slate-100">
+          {rows.map((r) => (
+            <tr key={r.id} className="align-top">
+              <td className="py-1 pr-3 tabular-nums text-slate-500">{r.id}</td>
+              <td className="py-1 pr-3">{r.toAddress}</td>
+              <td className="py-1 pr-3">{r.subject}</td>
+              <td className="py-1 pr-3 tabular-nums text-slate-600">{utc(r.createdAt)}</td>
+              <td className="py-1 pr-3">
+                {r.sentAt ? (
+                  <span className="text-pass">sent {utc(r.sentAt)}</span>
+                ) : (
+                  <span className="text-duty-ink">
+                    waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}
+                    {r.lastError ? <span className="block text-xs text-slate-600">{r.lastError}</span> : null}
+                  </span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
