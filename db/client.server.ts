@@ -207,3 +207,13 @@ export async function closeDb(): Promise<void> {
   rootDb = null;
   if (p) await p.end();
 }
+
+/**
+ * Rows changed by an UPDATE/DELETE/INSERT through drizzle's mysql-proxy driver: its result is
+ * `[header]` (or the bare header from a raw query), whose `affectedRows` the types do not show.
+ */
+export function affectedRows(result: unknown): number {
+  const header = (Array.isArray(result) ? result[0] : result) as { affectedRows?: unknown } | undefined;
+  const n = Number(header?.affectedRows ?? 0);
+  return Number.isFinite(n) ? n : 0;
+}

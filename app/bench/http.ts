@@ -11,7 +11,7 @@ import autocannon from "autocannon";
 import { readFileSync } from "node:fs";
 import { runCalc } from "~/lib/calc-api";
 import { TOKEN_CACHE_MS } from "~/lib/auth/token-cache.server";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { startSession } from "~/lib/auth/session.server";
 import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, listCandidates, selectCandidate } from "~/lib/projects.server";

@@ -5,7 +5,9 @@ import { and, eq } from "drizzle-orm";
 import { closeDb, db, withTransaction } from "../../db/client.server";
 import { memberships, users, workspaces } from "../../db/schema";
 import { hashPassword, normaliseEmail } from "../lib/auth/session.server";
-import { createApiToken, newUserId, slugify } from "../lib/auth/accounts.server";
+import { newUserId } from "../lib/auth/accounts.server";
+import { createApiToken } from "../lib/auth/api-tokens.server";
+import { slugify } from "../lib/workspaces";
 import { isRole } from "../lib/auth/permissions";
 
 function flags(argv: string[]): Record<string, string> {

@@ -10,7 +10,7 @@ import { curvePoints, curveSets, libraryRevisions, pumpModels, uploads } from "@
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, type Viewer } from "./libraries.server";
 import { correctedName } from "./upload-fix.server";
 import { call, makeMember, type TestMember } from "~/test/harness";
-import { createApiToken } from "./auth/accounts.server";
+import { createApiToken } from "./auth/api-tokens.server";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
 import * as apiUpload from "~/routes/api.v1.libraries.$id.upload";
 

@@ -6,7 +6,7 @@ import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
 import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type Verdict } from "~/engine";
-import { workspaceCurrency } from "./auth/accounts.server";
+import { workspaceCurrency } from "./workspaces";
 import {
   AdjustmentSchema,
   DEFAULT_ADJUSTMENT,

@@ -1,6 +1,6 @@
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/invite.$token";
-import { acceptInvitation, findInvitation } from "~/lib/auth/accounts.server";
+import { acceptInvitation, findInvitation } from "~/lib/workspaces";
 import { getAuth } from "~/lib/auth/session.server";
 import { requireUser } from "~/lib/auth/guards.server";
 import { Card, FormError } from "~/components/forms";

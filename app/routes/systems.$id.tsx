@@ -6,7 +6,7 @@ import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, systemWorkbench } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { workspaceCurrency } from "~/lib/auth/accounts.server";
+import { workspaceCurrency } from "~/lib/workspaces";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";

@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import { Form, redirect, useActionData } from "react-router";
 import type { Route } from "./+types/workspace.new";
-import { createWorkspace } from "~/lib/auth/accounts.server";
+import { createWorkspace } from "~/lib/workspaces";
 import { requireUser } from "~/lib/auth/guards.server";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Card, Field } from "~/components/forms";

@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import { Form, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/workspace";
-import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/auth/accounts.server";
+import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/workspaces";
 import { requireMember, setCurrentWorkspace } from "~/lib/auth/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions";
 import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";

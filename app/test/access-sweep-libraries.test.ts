@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, libraries, pumpModels, selections, systems, uploads } from "@db/schema";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
 import { defaultSystemInput, DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";

@@ -11,7 +11,7 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels } from "@db/schema";
 import { createLibrary } from "~/lib/libraries.server";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { freePort, makeMember } from "./harness";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
 

@@ -6,7 +6,7 @@ import { afterAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { stripeEvents, systems, uploads } from "@db/schema";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { PENDING_UPLOAD_TTL_HOURS } from "~/lib/uploads.server";
 import { createProject, createSystem } from "~/lib/projects.server";

@@ -5,7 +5,8 @@ import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { memberships, users, workspaces } from "@db/schema";
 import { hashPassword, startSession } from "~/lib/auth/session.server";
-import { newUserId, slugify } from "~/lib/auth/accounts.server";
+import { newUserId } from "~/lib/auth/accounts.server";
+import { slugify } from "~/lib/workspaces";
 import type { Role } from "~/lib/auth/permissions";
 
 export const BASE = "http://127.0.0.1:3999";

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { libraries } from "@db/schema";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
 import { createLibrary, deleteLibrary, libraryCurves, updateLibrary, type Viewer } from "~/lib/libraries.server";
 import { defaultSystemInput } from "~/lib/hydraulics";

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, workspaces } from "@db/schema";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries.server";
 import { createProject, createSystem, selectCandidate } from "~/lib/projects.server";
 import { defaultSystemInput } from "~/lib/hydraulics";

@@ -5,7 +5,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createApiToken } from "~/lib/auth/accounts.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, searchForSystem, systemWorkbench } from "~/lib/projects.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/hydraulics";

@@ -4,19 +4,9 @@ import { afterAll, describe, expect, test } from "vitest";
 import { and, desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { emailTokens, invitations, memberships, outbox, sessions, users } from "@db/schema";
-import {
-  acceptInvitation,
-  changeRole,
-  createApiToken,
-  invite,
-  removeMember,
-  requestPasswordReset,
-  resetPassword,
-  revokeApiToken,
-  revokeInvitation,
-  signUp,
-  verifyEmail,
-} from "./accounts.server";
+import { requestPasswordReset, resetPassword, signUp, verifyEmail } from "./accounts.server";
+import { createApiToken, revokeApiToken } from "./api-tokens.server";
+import { acceptInvitation, changeRole, invite, removeMember, revokeInvitation } from "../workspaces";
 import { checkCredentials, THROTTLE } from "./session.server";
 import { requireApi, requireMember } from "./guards.server";
 import { csrfRefusal } from "./csrf.server";

@@ -1,15 +1,16 @@
-// Accounts: sign-up, address verification, password reset, workspaces, invitations, API tokens.
+// Accounts: sign-up, address verification, password reset, profile. Workspaces and invitations are in
+// app/lib/workspaces/, API tokens in api-tokens.server.ts.
 // Every multi-row write runs in one transaction (withTransaction).
-import { and, eq, gt, isNull, ne, count } from "drizzle-orm";
-import { db, withTransaction, type Db } from "@db/client.server";
-import { apiTokens, emailTokens, invitations, memberships, sessions, signInAttempts, users, workspaces } from "@db/schema";
+import { and, eq, isNull } from "drizzle-orm";
+import { affectedRows, db, withTransaction, type Db } from "@db/client.server";
+import { apiTokens, emailTokens, memberships, sessions, signInAttempts, users, workspaces } from "@db/schema";
 import { data } from "react-router";
 import { hashPassword, normaliseEmail } from "./session.server";
 import { hashSecret, newSecret } from "./secrets.server";
 import { queueMail } from "../mail/outbox.server";
 import { hitRateLimit } from "../shared/ratelimit.server";
-import { passwordResetMail, verifyAddressMail, workspaceInviteMail, escapeHtml } from "../mail/templates";
-import type { Role } from "./permissions";
+import { passwordResetMail, verifyAddressMail, escapeHtml } from "../mail/templates";
+import { uniqueSlug } from "../workspaces/workspaces.server";
 
 import { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS } from "../shared/constants";
 import { settings } from "../shared/env.server";
@@ -18,27 +19,6 @@ export { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS };
 
 export function appUrl(): string {
   return settings().appUrl ?? "http://127.0.0.1:3000";
-}
-
-export function slugify(name: string): string {
-  const s = name
-    .toLowerCase()
-    .normalize("NFKD")
-    .replace(/[\u0300-\u036f]/g, "")
-    .replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-+|-+$/g, "")
-    .slice(0, 60);
-  return s || "workspace";
-}
-
-async function uniqueSlug(tx: Db, name: string): Promise<string> {
-  const base = slugify(name);
-  for (let i = 0; i < 50; i++) {
-    const slug = i === 0 ? base : `${base}-${i + 1}`;
-    const found = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, slug));
-    if (found.length === 0) return slug;
-  }
-  return `${base}-${newSecret(4).toLowerCase()}`;
 }
 
 /** Sent to the owner of an address when someone tries to sign up with it again. */
@@ -55,11 +35,6 @@ function passwordChangedMail(tokens: number, forgotUrl: string) {
   const html = `<p>Hello,</p><p>The password of your Dutymark account was just changed with a reset link. ${escapeHtml(what)}</p><p>If it was not you, <a href="${escapeHtml(forgotUrl)}">choose a new password now</a>.</p>`;
   return { subject: "Your Dutymark password was changed", text, html };
 }
-
-/** Membership and token changes clear the verified-token cache once committed (token-cache.server.ts). */
-const clearingTokens = <T>(work: Promise<T>): Promise<T> => work.finally(forgetTokens);
-
-const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
 
 export function newUserId(): string {
   return `u_${newSecret(15)}`;
@@ -134,7 +109,7 @@ async function consumeEmailToken(tx: Db, secret: string, purpose: "verify" | "re
     .update(emailTokens)
     .set({ usedAt: new Date() })
     .where(and(eq(emailTokens.id, t.id), isNull(emailTokens.usedAt)));
-  return affected(r) === 1 ? t.userId : null;
+  return affectedRows(r) === 1 ? t.userId : null;
 }
 
 /** Confirms the address of the link's user; returns that user's id, or null. */
@@ -187,7 +162,7 @@ export async function resetPassword(secret: string, password: string): Promise<b
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
     await tx.update(users).set({ passwordHash, emailVerified: true }).where(eq(users.id, userId));
     await tx.delete(sessions).where(eq(sessions.userId, userId));
-    const revoked = affected(await tx.update(apiTokens).set({ revokedAt: new Date() }).where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt))));
+    const revoked = affectedRows(await tx.update(apiTokens).set({ revokedAt: new Date() }).where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt))));
     await tx.update(emailTokens).set({ usedAt: new Date() }).where(and(eq(emailTokens.userId, userId), eq(emailTokens.purpose, "reset"), isNull(emailTokens.usedAt)));
     if (u) await tx.delete(signInAttempts).where(and(eq(signInAttempts.emailKey, u.email), eq(signInAttempts.success, false)));
     return { email: u?.email, revoked };
@@ -199,192 +174,12 @@ export async function resetPassword(secret: string, password: string): Promise<b
 }
 
 /** Tokens and invitations need a confirmed address (else anyone could sign up with someone's address and keep a door open). */
-async function requireVerified(userId: string, what: string): Promise<void> {
+export async function requireVerified(userId: string, what: string): Promise<void> {
   const [u] = await db().select({ v: users.emailVerified }).from(users).where(eq(users.id, userId));
   if (!u?.v) throw data(`Confirm your e-mail address before ${what}.`, { status: 403 });
-}
-
-export async function createWorkspace(userId: string, name: string): Promise<number> {
-  return withTransaction(async (tx) => {
-    const slug = await uniqueSlug(tx, name);
-    const [{ id }] = await tx.insert(workspaces).values({ name: name.trim(), slug }).$returningId();
-    await tx.insert(memberships).values({ workspaceId: id, userId, role: "admin" });
-    await tx.update(users).set({ currentWorkspaceId: id }).where(eq(users.id, userId));
-    return id;
-  });
-}
-
-/** ISO 4217 currency code of the workspace's tariffs and energy costs (EUR when unset). */
-export async function workspaceCurrency(workspaceId: number): Promise<string> {
-  const [w] = await db().select({ currency: workspaces.currency }).from(workspaces).where(eq(workspaces.id, workspaceId));
-  return w?.currency ?? "EUR";
-}
-
-export async function setWorkspaceCurrency(workspaceId: number, currency: string): Promise<void> {
-  await db().update(workspaces).set({ currency: currency.toUpperCase() }).where(eq(workspaces.id, workspaceId));
-}
-
-export async function renameWorkspace(workspaceId: number, name: string): Promise<void> {
-  await db().update(workspaces).set({ name: name.trim() }).where(eq(workspaces.id, workspaceId));
-}
-
-export async function listMembers(workspaceId: number) {
-  return db()
-    .select({ id: memberships.id, userId: users.id, email: users.email, name: users.name, role: memberships.role, since: memberships.createdAt })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(eq(memberships.workspaceId, workspaceId))
-    .orderBy(users.email);
-}
-
-export async function listInvitations(workspaceId: number) {
-  return db()
-    .select({ id: invitations.id, email: invitations.email, role: invitations.role, expiresAt: invitations.expiresAt, createdAt: invitations.createdAt })
-    .from(invitations)
-    .where(and(eq(invitations.workspaceId, workspaceId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, new Date())));
-}
-
-export async function invite(input: { workspaceId: number; workspaceName: string; inviterId: string; inviterName: string; email: string; role: Role }) {
-  await requireVerified(input.inviterId, "inviting people");
-  const secret = newSecret();
-  const email = normaliseEmail(input.email);
-  await db()
-    .insert(invitations)
-    .values({
-      workspaceId: input.workspaceId,
-      email,
-      role: input.role,
-      tokenHash: hashSecret(secret),
-      invitedBy: input.inviterId,
-      expiresAt: new Date(Date.now() + INVITE_TTL_DAYS * 86_400_000),
-    });
-  await queueMail({
-    to: email,
-    ...workspaceInviteMail({
-      inviterName: input.inviterName || "A colleague",
-      workspaceName: input.workspaceName,
-      role: input.role,
-      link: `${appUrl()}/invite/${secret}`,
-      expiresInDays: INVITE_TTL_DAYS,
-    }),
-  });
-  return secret;
-}
-
-export async function revokeInvitation(workspaceId: number, invitationId: number): Promise<boolean> {
-  const r = await db()
-    .update(invitations)
-    .set({ revokedAt: new Date() })
-    .where(and(eq(invitations.id, invitationId), eq(invitations.workspaceId, workspaceId)));
-  return affected(r) === 1;
-}
-
-export async function findInvitation(secret: string) {
-  if (!secret || secret.length > 200) return null;
-  const [row] = await db()
-    .select({ inv: invitations, workspaceName: workspaces.name })
-    .from(invitations)
-    .innerJoin(workspaces, eq(workspaces.id, invitations.workspaceId))
-    .where(eq(invitations.tokenHash, hashSecret(secret)));
-  if (!row || row.inv.acceptedAt || row.inv.revokedAt || row.inv.expiresAt <= new Date()) return null;
-  return row;
-}
-
-/**
- * The signed-in user joins with the invited role; the invitation is used up. Only the account with
- * the invited address may accept. Someone already a member keeps their role (role changes are the
- * admins' job), so no invitation can demote anyone — least of all a workspace's only admin.
- */
-export async function acceptInvitation(secret: string, userId: string): Promise<{ workspaceId: number } | null> {
-  if (!secret || secret.length > 200) return null;
-  return clearingTokens(withTransaction(async (tx) => {
-    const [inv] = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashSecret(secret)));
-    if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt <= new Date()) return null;
-    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
-    if (!u || u.email !== inv.email) return null;
-    const r = await tx.update(invitations).set({ acceptedAt: new Date() }).where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt)));
-    if (affected(r) !== 1) return null;
-    const existing = await tx
-      .select({ id: memberships.id })
-      .from(memberships)
-      .where(and(eq(memberships.workspaceId, inv.workspaceId), eq(memberships.userId, userId)));
-    if (!existing.length) await tx.insert(memberships).values({ workspaceId: inv.workspaceId, userId, role: inv.role });
-    // Whoever opened the link from their mailbox has shown they read that address.
-    await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
-    await tx.update(users).set({ currentWorkspaceId: inv.workspaceId }).where(eq(users.id, userId));
-    return { workspaceId: inv.workspaceId };
-  }));
-}
-
-async function adminCount(tx: Db, workspaceId: number): Promise<number> {
-  const [r] = await tx
-    .select({ n: count() })
-    .from(memberships)
-    .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.role, "admin")));
-  return Number(r?.n ?? 0);
-}
-
-export type MemberChange = "ok" | "not-found" | "last-admin";
-
-/** Changes a member's role; a workspace always keeps at least one admin. */
-export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
-  return clearingTokens(withTransaction(async (tx) => {
-    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
-    if (!m) return "not-found";
-    if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
-    await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
-    return "ok";
-  }));
-}
-
-export async function removeMember(workspaceId: number, membershipId: number): Promise<MemberChange> {
-  return clearingTokens(withTransaction(async (tx) => {
-    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
-    if (!m) return "not-found";
-    if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
-    await tx.delete(memberships).where(eq(memberships.id, m.id));
-    await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
-    return "ok";
-  }));
-}
-
-export const API_TOKEN_PREFIX = "dmk_";
-
-/** A new API token: returned once, stored hashed. */
-export async function createApiToken(input: { userId: string; workspaceId: number; name: string; scope: "read" | "write" }) {
-  await requireVerified(input.userId, "creating API tokens");
-  const secret = `${API_TOKEN_PREFIX}${newSecret(30)}`;
-  const [{ id }] = await db()
-    .insert(apiTokens)
-    .values({ ...input, prefix: secret.slice(0, 10), tokenHash: hashSecret(secret) })
-    .$returningId();
-  return { id, token: secret };
-}
-
-export async function listApiTokens(userId: string, workspaceId: number) {
-  return db()
-    .select({ id: apiTokens.id, name: apiTokens.name, prefix: apiTokens.prefix, scope: apiTokens.scope, lastUsedAt: apiTokens.lastUsedAt, createdAt: apiTokens.createdAt })
-    .from(apiTokens)
-    .where(and(eq(apiTokens.userId, userId), eq(apiTokens.workspaceId, workspaceId), isNull(apiTokens.revokedAt)));
-}
-
-export async function revokeApiToken(userId: string, tokenId: number): Promise<boolean> {
-  const r = await db()
-    .update(apiTokens)
-    .set({ revokedAt: new Date() })
-    .where(and(eq(apiTokens.id, tokenId), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
-  forgetTokens();
-  return affected(r) === 1;
 }
 
 export async function updateProfile(userId: string, input: { name: string; unitSystem: "SI" | "US" }) {
   await db().update(users).set(input).where(eq(users.id, userId));
 }
 
-export async function otherMembersCount(workspaceId: number, userId: string) {
-  const [r] = await db()
-    .select({ n: count() })
-    .from(memberships)
-    .where(and(eq(memberships.workspaceId, workspaceId), ne(memberships.userId, userId)));
-  return Number(r?.n ?? 0);
-}

@@ -3,7 +3,7 @@ import { Lucia, TimeSpan, type Session, type User } from "lucia";
 import { DrizzleMySQLAdapter } from "@lucia-auth/adapter-drizzle";
 import { hash, verify } from "@node-rs/argon2";
 import { and, count, eq, gt, max } from "drizzle-orm";
-import { db } from "@db/client.server";
+import { affectedRows, db } from "@db/client.server";
 import { sessions, signInAttempts, users } from "@db/schema";
 import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
@@ -180,8 +180,8 @@ export async function listSessions(userId: string) {
 }
 
 export async function revokeSession(userId: string, sessionId: string): Promise<boolean> {
-  const r = (await db()
+  const r = await db()
     .delete(sessions)
-    .where(and(eq(sessions.userId, userId), eq(sessions.id, sessionId)))) as unknown as [{ affectedRows: number }];
-  return (r?.[0]?.affectedRows ?? 0) > 0;
+    .where(and(eq(sessions.userId, userId), eq(sessions.id, sessionId)));
+  return affectedRows(r) > 0;
 }

@@ -5,7 +5,8 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, memberships } from "@db/schema";
 import { makeMember } from "~/test/harness";
-import { changeRole, createApiToken, removeMember, revokeApiToken } from "./accounts.server";
+import { createApiToken, revokeApiToken } from "./api-tokens.server";
+import { changeRole, removeMember } from "../workspaces";
 import { requireApi } from "./guards.server";
 import { TOKEN_CACHE_MS, cachedToken, forgetTokens, rememberToken } from "./token-cache.server";
 

@@ -4,7 +4,7 @@ import { afterAll, describe, expect, test } from "vitest";
 import { like } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { rateLimits } from "@db/schema";
-import { createApiToken } from "../auth/accounts.server";
+import { createApiToken } from "../auth/api-tokens.server";
 import { ANON_RATE_LIMIT, CALC_LIMITS, calcAction, calcPipeLoss, runCalc } from ".";
 import { windowStartOf } from "../shared/ratelimit.server";
 import { call, makeMember, type CallResult } from "~/test/harness";

@@ -13,7 +13,7 @@
 //   MAILBOX_API_URL  the SMTP stand-in's HTTP API, read by the development mailbox page.
 import nodemailer, { type Transporter } from "nodemailer";
 import { and, desc, eq, isNull, lt, sql } from "drizzle-orm";
-import { db, retryOnConflict } from "@db/client.server";
+import { affectedRows, db, retryOnConflict } from "@db/client.server";
 import { outbox } from "@db/schema";
 import { DEFAULT_MAIL_FROM, settings } from "../shared/env.server";
 
@@ -128,8 +128,7 @@ async function claim(id: number, attemptsSeen: number): Promise<boolean> {
       .set({ attempts: sql`${outbox.attempts} + 1` })
       .where(and(eq(outbox.id, id), eq(outbox.attempts, attemptsSeen), isNull(outbox.sentAt))),
   )) as unknown;
-  const header = (Array.isArray(res) ? res[0] : res) as { affectedRows?: number } | undefined;
-  return (header?.affectedRows ?? 0) === 1;
+  return affectedRows(res) === 1;
 }
 
 /** One delivery attempt of a claimed row; records the outcome on the row. */

@@ -5,7 +5,7 @@
 // count (1, 2, 3, …) with no read-after-write race. A new row (first hit of a window) reports
 // insertId 0 — the table has no AUTO_INCREMENT column — which means hits = 1.
 import { and, like, lt, sql } from "drizzle-orm";
-import { db, retryOnConflict } from "@db/client.server";
+import { affectedRows, db, retryOnConflict } from "@db/client.server";
 import { rateLimits } from "@db/schema";
 
 export type RateLimitRule = {
@@ -80,6 +80,5 @@ export async function hitRateLimit(bucket: string, rule: RateLimitRule, now: Dat
 export async function pruneRateLimits(before: Date, bucketPrefix?: string): Promise<number> {
   const old = lt(rateLimits.windowStart, before);
   const where = bucketPrefix ? and(old, like(rateLimits.bucket, `${bucketPrefix.replace(/[\\%_]/g, "\\$&")}%`)) : old;
-  const [res] = (await db().delete(rateLimits).where(where)) as unknown as [{ affectedRows: number }];
-  return Number(res?.affectedRows ?? 0);
+  return affectedRows(await db().delete(rateLimits).where(where));
 }

@@ -1,0 +1,105 @@
+// Workspaces and their members: create, rename, currency, list, change a role, remove. A workspace
+// always keeps at least one admin. Membership changes clear the verified-token cache once committed.
+import { and, eq, ne, count } from "drizzle-orm";
+import { db, withTransaction, type Db } from "@db/client.server";
+import { apiTokens, memberships, users, workspaces } from "@db/schema";
+import { newSecret } from "../auth/secrets.server";
+import { forgetTokens } from "../auth/token-cache.server";
+import type { Role } from "../auth/permissions";
+
+/** Membership and token changes clear the verified-token cache once committed (token-cache.server.ts). */
+export const clearingTokens = <T>(work: Promise<T>): Promise<T> => work.finally(forgetTokens);
+
+export function slugify(name: string): string {
+  const s = name
+    .toLowerCase()
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60);
+  return s || "workspace";
+}
+
+export async function uniqueSlug(tx: Db, name: string): Promise<string> {
+  const base = slugify(name);
+  for (let i = 0; i < 50; i++) {
+    const slug = i === 0 ? base : `${base}-${i + 1}`;
+    const found = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, slug));
+    if (found.length === 0) return slug;
+  }
+  return `${base}-${newSecret(4).toLowerCase()}`;
+}
+
+export async function createWorkspace(userId: string, name: string): Promise<number> {
+  return withTransaction(async (tx) => {
+    const slug = await uniqueSlug(tx, name);
+    const [{ id }] = await tx.insert(workspaces).values({ name: name.trim(), slug }).$returningId();
+    await tx.insert(memberships).values({ workspaceId: id, userId, role: "admin" });
+    await tx.update(users).set({ currentWorkspaceId: id }).where(eq(users.id, userId));
+    return id;
+  });
+}
+
+/** ISO 4217 currency code of the workspace's tariffs and energy costs (EUR when unset). */
+export async function workspaceCurrency(workspaceId: number): Promise<string> {
+  const [w] = await db().select({ currency: workspaces.currency }).from(workspaces).where(eq(workspaces.id, workspaceId));
+  return w?.currency ?? "EUR";
+}
+
+export async function setWorkspaceCurrency(workspaceId: number, currency: string): Promise<void> {
+  await db().update(workspaces).set({ currency: currency.toUpperCase() }).where(eq(workspaces.id, workspaceId));
+}
+
+export async function renameWorkspace(workspaceId: number, name: string): Promise<void> {
+  await db().update(workspaces).set({ name: name.trim() }).where(eq(workspaces.id, workspaceId));
+}
+
+export async function listMembers(workspaceId: number) {
+  return db()
+    .select({ id: memberships.id, userId: users.id, email: users.email, name: users.name, role: memberships.role, since: memberships.createdAt })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.workspaceId, workspaceId))
+    .orderBy(users.email);
+}
+
+async function adminCount(tx: Db, workspaceId: number): Promise<number> {
+  const [r] = await tx
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.role, "admin")));
+  return Number(r?.n ?? 0);
+}
+
+export type MemberChange = "ok" | "not-found" | "last-admin";
+
+/** Changes a member's role; a workspace always keeps at least one admin. */
+export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
+  return clearingTokens(withTransaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    if (!m) return "not-found";
+    if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
+    await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
+    return "ok";
+  }));
+}
+
+export async function removeMember(workspaceId: number, membershipId: number): Promise<MemberChange> {
+  return clearingTokens(withTransaction(async (tx) => {
+    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    if (!m) return "not-found";
+    if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
+    await tx.delete(memberships).where(eq(memberships.id, m.id));
+    await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
+    return "ok";
+  }));
+}
+
+export async function otherMembersCount(workspaceId: number, userId: string) {
+  const [r] = await db()
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.workspaceId, workspaceId), ne(memberships.userId, userId)));
+  return Number(r?.n ?? 0);
+}
