@@ -3,6 +3,7 @@ import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api/schemas";
 import { REQUEST_SCHEMAS, UNIT_SUFFIXES, calculatorCorrelations, describeRequest } from "~/lib/calc-api/docs";
 import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
 // Field tables and limits are generated from the request schemas (app/lib/calc-api/docs.ts).
@@ -258,3 +259,5 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the API documentation", back: { href: "/", label: "The start page" } });

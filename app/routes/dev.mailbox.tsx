@@ -7,6 +7,7 @@ import { mailboxAction, mailboxEnabled, mailboxPage } from "~/lib/mail";
 import { MessageItem } from "~/components/mailbox/MessageItem";
 import { OutboxTable } from "~/components/mailbox/OutboxTable";
 import { Section } from "~/components/mailbox/Section";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Development mailbox · Dutymark" }, { name: "robots", content: "noindex" }];
 
@@ -109,3 +110,5 @@ export default function DevMailbox({ loaderData: data, actionData: done }: Route
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the development mailbox", back: { href: "/", label: "The start page" } });

@@ -6,6 +6,7 @@ import { clientIp } from "~/lib/auth/session.server";
 import { EMAIL_TOKEN_TTL } from "~/lib/shared/constants";
 import { Email, invalid, readForm } from "~/lib/shared/forms.server";
 import { Card, Field, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Dutymark" }];
 
@@ -36,3 +37,5 @@ export default function Forgot() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the password reset form", back: { href: "/signin", label: "Sign in" } });

@@ -1,4 +1,5 @@
 import type { Route } from "./+types/home";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Dutymark" }];
 
@@ -49,3 +50,5 @@ export default function Home() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the start page", back: { href: "/", label: "Reload the start page" } });

@@ -4,6 +4,7 @@ import { acceptInvitation, findInvitation } from "~/lib/workspaces";
 import { getAuth } from "~/lib/auth/session.server";
 import { requireUser } from "~/lib/auth/guards.server";
 import { Card, FormError } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Invitation · Dutymark" }];
 
@@ -63,3 +64,6 @@ export default function Invite({ params }: Route.ComponentProps) {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this invitation", back: { href: "/", label: "The start page" } });
+

@@ -7,6 +7,7 @@ import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
 
@@ -104,3 +105,5 @@ function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<t
     </table>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the pump libraries", back: { href: "/", label: "The start page" } });

@@ -5,6 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { IdField, invalid, readForm, readId } from "~/lib/shared/forms.server";
 import { listShares, shareProject, unshareProject } from "~/lib/fieldchecks.server";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
 // commissioning contractor) by its exact name or short name; lists and removes shares.
@@ -102,3 +103,5 @@ export default function ShareProject() {
     </article>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this project's sharing", back: { href: "/projects", label: "Your projects" } });

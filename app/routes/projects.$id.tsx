@@ -8,6 +8,7 @@ import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { fmtFlow, fmtHead } from "~/components/units";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -167,3 +168,5 @@ export default function ProjectPage() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this project", back: { href: "/projects", label: "Your projects" } });

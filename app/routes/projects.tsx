@@ -7,6 +7,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];
 
@@ -88,3 +89,5 @@ export default function Projects() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "your projects", back: { href: "/", label: "The start page" } });

@@ -4,6 +4,7 @@ import type { Route } from "./+types/reset";
 import { resetPassword } from "~/lib/auth/accounts.server";
 import { invalid, NewPassword, readForm } from "~/lib/shared/forms.server";
 import { Card, Field, FormError } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Dutymark" }];
 
@@ -39,3 +40,5 @@ export default function Reset() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the new-password form", back: { href: "/forgot", label: "Ask for a new reset link" } });

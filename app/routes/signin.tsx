@@ -4,6 +4,7 @@ import type { Route } from "./+types/signin";
 import { checkCredentials, clientIp, getAuth, startSession } from "~/lib/auth/session.server";
 import { AnyPassword, Email, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Dutymark" }];
 
@@ -57,3 +58,5 @@ export default function SignIn() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the sign-in form", back: { href: "/", label: "The start page" } });

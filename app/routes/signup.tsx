@@ -5,6 +5,7 @@ import { getAuth } from "~/lib/auth/session.server";
 import { signUp } from "~/lib/auth/accounts.server";
 import { Email, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Dutymark" }];
 
@@ -68,3 +69,5 @@ export default function SignUp() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the sign-up form", back: { href: "/signin", label: "Sign in instead" } });

@@ -5,6 +5,7 @@ import { verifyEmailUser } from "~/lib/auth/accounts.server";
 import { startSession } from "~/lib/auth/session.server";
 import { readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, FormError, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Confirm your address · Dutymark" }];
 
@@ -47,3 +48,5 @@ export default function Verify() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the address confirmation", back: { href: "/signin", label: "Sign in" } });

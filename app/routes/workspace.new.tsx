@@ -5,6 +5,7 @@ import { createWorkspace } from "~/lib/workspaces";
 import { requireUser } from "~/lib/auth/guards.server";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Card, Field } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "New workspace · Dutymark" }];
 
@@ -33,3 +34,5 @@ export default function NewWorkspace() {
     </Card>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the new-workspace form", back: { href: "/workspace", label: "Your workspace" } });

@@ -7,6 +7,7 @@ import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions
 import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { data } from "react-router";
 import { Field, FormError, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
 
@@ -232,3 +233,5 @@ export default function Workspace() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this workspace", back: { href: "/projects", label: "Your projects" } });
