@@ -2,6 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
 import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
 import { createLibrary, listLibraries } from "~/lib/libraries.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
@@ -13,7 +14,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutym
 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
-  const list = await listLibraries({ userId: m.user.id, workspace: m.workspace, role: m.role });
+  const list = await listLibraries(viewerOf(m));
   return { list, canWrite: can(m.role, "library.write"), workspace: m.workspace };
 }
 
@@ -26,7 +27,7 @@ export async function action({ request }: Route.ActionArgs) {
   const m = await requireMember(request, "library.write");
   const r = await readForm(request, Schema);
   if (!r.ok) return invalid(r.errors);
-  const id = await createLibrary({ userId: m.user.id, workspace: m.workspace, role: m.role }, r.value);
+  const id = await createLibrary(viewerOf(m), r.value);
   throw redirect(`/libraries/${id}`);
 }
 
