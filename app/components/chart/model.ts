@@ -4,19 +4,10 @@
  * the server and in the browser.
  */
 import { scaleLinear, type ScaleLinear } from "d3-scale";
-import {
-  bandBetween,
-  cleanPoints,
-  displayUnits,
-  extent,
-  flowToDisplay,
-  niceDomain,
-  pumpColor,
-  seriesToDisplay,
-  valueToDisplay,
-  type BandPt,
-  type DisplayUnits,
-} from "./scales.ts";
+import { pumpColor } from "./colors.ts";
+import { bandBetween, cleanPoints, type BandPt } from "./curves.ts";
+import { displayUnits, flowToDisplay, seriesToDisplay, valueToDisplay, type DisplayUnits } from "./display-units.ts";
+import { extent, niceDomain } from "./scales.ts";
 import type { DutyChartProps, Pt } from "./types.ts";
 
 export type PanelKind = "head" | "efficiency" | "power" | "npsh";

@@ -2,7 +2,8 @@
  * Values of every curve at one flow (for the crosshair readout and the table view).
  * Pure; works in display units on a {@link ChartModel}.
  */
-import { formatValue, interpolateAt } from "./scales.ts";
+import { interpolateAt } from "./curves.ts";
+import { formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type PanelKind } from "./model.ts";
 
 export interface ReadoutRow {

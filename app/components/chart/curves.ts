@@ -1,0 +1,122 @@
+/**
+ * Curve arithmetic on point lists (any units): cleaning, linear interpolation at a flow, the band
+ * between two curves, a slice of a curve, and where two curves cross. Pure; no React, no DOM.
+ */
+import type { Pt } from "./types.ts";
+
+/**
+ * Keeps finite points only and sorts them by flow (stable), so interpolation and drawing
+ * never see NaN or a backwards segment.
+ */
+export function cleanPoints(points: readonly Pt[] | undefined | null): Pt[] {
+  if (!points) return [];
+  return points
+    .filter((p) => p != null && Number.isFinite(p.flow) && Number.isFinite(p.y))
+    .slice()
+    .sort((a, b) => a.flow - b.flow);
+}
+
+/**
+ * Value of a curve at `flow`, interpolated linearly between the neighbouring points;
+ * null outside the curve's flow range (no extrapolation) or for an empty curve.
+ * Points need not be sorted; non-finite points are ignored.
+ */
+export function interpolateAt(points: readonly Pt[] | undefined | null, flow: number): number | null {
+  if (!Number.isFinite(flow)) return null;
+  const pts = isSortedFinite(points) ? (points as Pt[]) : cleanPoints(points);
+  const n = pts.length;
+  if (n === 0) return null;
+  if (flow < pts[0].flow || flow > pts[n - 1].flow) return null;
+  // Binary search for the last point with p.flow <= flow.
+  let lo = 0;
+  let hi = n - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (pts[mid].flow <= flow) lo = mid;
+    else hi = mid;
+  }
+  const a = pts[lo];
+  const b = pts[hi];
+  if (flow === a.flow) return a.y;
+  if (flow === b.flow) return b.y;
+  const span = b.flow - a.flow;
+  if (span === 0) return a.y;
+  return a.y + ((b.y - a.y) * (flow - a.flow)) / span;
+}
+
+function isSortedFinite(points: readonly Pt[] | undefined | null): boolean {
+  if (!points) return false;
+  for (let i = 0; i < points.length; i++) {
+    const p = points[i];
+    if (!p || !Number.isFinite(p.flow) || !Number.isFinite(p.y)) return false;
+    if (i > 0 && p.flow < points[i - 1].flow) return false;
+  }
+  return true;
+}
+
+/** One slice of a band: flow and the lower/upper values there. */
+export type BandPt = { flow: number; y0: number; y1: number };
+
+/**
+ * The band between two curves, on the union of their flows where both are defined;
+ * y0 is the lower of the two values and y1 the upper at every flow.
+ */
+export function bandBetween(a: readonly Pt[], b: readonly Pt[]): BandPt[] {
+  const ca = cleanPoints(a);
+  const cb = cleanPoints(b);
+  const flows = Array.from(new Set([...ca.map((p) => p.flow), ...cb.map((p) => p.flow)])).sort(
+    (x, y) => x - y,
+  );
+  const out: BandPt[] = [];
+  for (const f of flows) {
+    const ya = interpolateAt(ca, f);
+    const yb = interpolateAt(cb, f);
+    if (ya === null || yb === null) continue;
+    out.push({ flow: f, y0: Math.min(ya, yb), y1: Math.max(ya, yb) });
+  }
+  return out;
+}
+
+/**
+ * The part of a curve between flows a and b, with interpolated end points (for shading a
+ * stretch of a curve, e.g. the preferred operating region). Empty if they do not overlap.
+ */
+export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
+  const pts = cleanPoints(points);
+  if (pts.length < 2) return [];
+  const lo = Math.max(Math.min(a, b), pts[0].flow);
+  const hi = Math.min(Math.max(a, b), pts[pts.length - 1].flow);
+  if (!(hi > lo)) return [];
+  const out: Pt[] = [{ flow: lo, y: interpolateAt(pts, lo)! }];
+  for (const p of pts) if (p.flow > lo && p.flow < hi) out.push(p);
+  out.push({ flow: hi, y: interpolateAt(pts, hi)! });
+  return out;
+}
+
+/**
+ * Where a pump curve meets a system curve, both as points (linear between points): the crossing at
+ * the highest flow where pump head − system head changes sign, over the flows both cover; null if
+ * they do not meet there. Used where only sampled curves are at hand (stored field-check charts).
+ */
+export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
+  const p = cleanPoints(pump);
+  const s = cleanPoints(system);
+  if (p.length < 2 || s.length < 2) return null;
+  const lo = Math.max(p[0].flow, s[0].flow);
+  const hi = Math.min(p[p.length - 1].flow, s[s.length - 1].flow);
+  if (!(hi > lo)) return null;
+  const flows = Array.from(new Set([lo, hi, ...p.map((q) => q.flow), ...s.map((q) => q.flow)].filter((f) => f >= lo && f <= hi))).sort((a, b) => a - b);
+  let found: Pt | null = null;
+  let prev: { f: number; g: number } | null = null;
+  for (const f of flows) {
+    const g = (interpolateAt(p, f) as number) - (interpolateAt(s, f) as number);
+    if (g === 0) found = { flow: f, y: interpolateAt(p, f) as number };
+    else if (prev && prev.g * g < 0) {
+      const t = prev.g / (prev.g - g);
+      const flow = prev.f + t * (f - prev.f);
+      found = { flow, y: interpolateAt(p, flow) as number };
+    }
+    prev = { f, g };
+  }
+  return found;
+}

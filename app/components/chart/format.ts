@@ -1,0 +1,19 @@
+/**
+ * Number formatting for the chart's labels, readout and tables: fixed decimals by magnitude,
+ * locale-independent, so the server and the browser render the same text.
+ */
+
+/**
+ * Formats a display value: 3 decimals below 1, 2 below 10, else 1 — e.g. 360 → "360.0",
+ * 1585.03 → "1585.0", 4.2 → "4.20". Locale-independent (identical on server and client).
+ * Exactly 0 → "0"; non-finite or null → "—".
+ */
+export function formatValue(v: number | null | undefined): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return "—";
+  if (v === 0) return "0";
+  const a = Math.abs(v);
+  const digits = a < 1 ? 3 : a < 10 ? 2 : 1;
+  const s = v.toFixed(digits);
+  // Avoid "-0.0".
+  return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
+}
