@@ -5,7 +5,8 @@
  * Carlson (app/engine/interp.ts); `engineSmooth` draws exactly that through the points that will
  * be imported, so the overlay on the picture shows what the selection will see. `resample` turns a
  * dense trace (one point per pixel step, with pixel noise) into a few evenly spaced points by a
- * local straight-line least-squares fit around each target flow (common practice for smoothing).
+ * local least-squares parabola around each target flow (local polynomial smoothing, common
+ * practice; a parabola has no bias on a pump's near-quadratic head curve, even at the curve ends).
  */
 import { evalCubic, monotoneCubic } from "~/engine";
 
@@ -22,7 +23,7 @@ export function cleanPoints(points: readonly XY[]): XY[] {
 
 /**
  * `n` points at evenly spaced flows from the first to the last traced flow, each the value at that
- * flow of a straight line fitted (least squares) to the traced points within ± one spacing.
+ * flow of a parabola fitted (least squares) to the traced points within ± one spacing.
  */
 export function resample(points: readonly XY[], n: number): XY[] {
   const ps = cleanPoints(points);
@@ -33,20 +34,33 @@ export function resample(points: readonly XY[], n: number): XY[] {
   for (let k = 0; k < n; k++) {
     const x = k === n - 1 ? x1 : x0 + h * k;
     const near = ps.filter((p) => Math.abs(p.x - x) <= h);
-    out.push({ x, y: near.length >= 2 ? lineAt(near, x) : valueAt(ps, x) ?? ps[0].y });
+    out.push({ x, y: near.length >= 2 ? localFit(near, x) : valueAt(ps, x) ?? ps[0].y });
   }
   return out;
 }
 
-function lineAt(ps: readonly XY[], x: number): number {
+/** Value at x of the least-squares parabola through the points (x centred; a line when 2 points or degenerate). */
+function localFit(ps: readonly XY[], x: number): number {
   const n = ps.length;
-  const mx = ps.reduce((s, p) => s + p.x, 0) / n, my = ps.reduce((s, p) => s + p.y, 0) / n;
-  let sxx = 0, sxy = 0;
+  const S = [0, 0, 0, 0, 0], T = [0, 0, 0];
   for (const p of ps) {
-    sxx += (p.x - mx) ** 2;
-    sxy += (p.x - mx) * (p.y - my);
+    const d = p.x - x;
+    let dk = 1;
+    for (let k = 0; k < 5; k++) {
+      S[k] += dk;
+      if (k < 3) T[k] += dk * p.y;
+      dk *= d;
+    }
   }
-  return sxx > 0 ? my + (sxy / sxx) * (x - mx) : my;
+  if (n >= 3) {
+    // Normal equations for y ≈ c0 + c1·d + c2·d²; the value at x is c0 (Cramer's rule).
+    const det3 = (m: number[][]) => m[0][0] * (m[1][1] * m[2][2] - m[1][2] * m[2][1]) - m[0][1] * (m[1][0] * m[2][2] - m[1][2] * m[2][0]) + m[0][2] * (m[1][0] * m[2][1] - m[1][1] * m[2][0]);
+    const M = [[S[0], S[1], S[2]], [S[1], S[2], S[3]], [S[2], S[3], S[4]]];
+    const D = det3(M);
+    if (Math.abs(D) > 1e-12 * Math.abs(S[0] * S[2] * S[4])) return det3([[T[0], S[1], S[2]], [T[1], S[2], S[3]], [T[2], S[3], S[4]]]) / D;
+  }
+  const den = S[0] * S[2] - S[1] * S[1];
+  return den > 0 ? (S[2] * T[0] - S[1] * T[1]) / den : T[0] / S[0];
 }
 
 /** The engine's interpolant through the points at `x`; null outside their flow range. */

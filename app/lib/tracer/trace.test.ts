@@ -3,7 +3,7 @@
 // the issue's acceptance figures (issue 20): 0.5 % of the axis span for points, 1 point of efficiency.
 import { describe, expect, it } from "vitest";
 import { PNG } from "pngjs";
-import { calibrate, colourMask, toData, traceMask, type AxisRef, type Calibration, type Rgba } from "./index";
+import { calibrate, colourMask, resample, toData, traceMask, type AxisRef, type Calibration, type Rgba } from "./index";
 import { CHART, CURVE_COLOUR, IMPELLERS, Q_MAX, drawChart, headOf, paper, skewed, type Skew } from "./test-chart";
 
 /** Through a real PNG file and back, as an upload would be. */
@@ -29,7 +29,7 @@ function clicks(skew?: Skew, extraX = false) {
 
 /** Max |traced − true| over the traced points, % of each axis span (head at traced flow). */
 function recovery(img: Rgba, cal: Calibration, skew?: Skew) {
-  let worst = 0, n = 0;
+  let worst = 0, n = 0, worstRow = 0;
   for (const imp of IMPELLERS) {
     const mask = colourMask(img, CURVE_COLOUR, 90, { u0: 0, v0: 0, u1: img.width - 1, v1: img.height - 1 });
     const [su, sv] = skewed(paper(20, headOf(imp.h0, 20)), skew);
@@ -41,8 +41,10 @@ function recovery(img: Rgba, cal: Calibration, skew?: Skew) {
     expect(inside[0].x).toBeLessThan(2);
     expect(inside[inside.length - 1].x).toBeGreaterThan(Q_MAX - 2);
     n += inside.length;
+    // The 15 points that go into the CSV (resampled as tracedRows does).
+    for (const p of resample(pts, 15)) worstRow = Math.max(worstRow, (100 * Math.abs(p.y - headOf(imp.h0, p.x))) / (CHART.head[1] - CHART.head[0]));
   }
-  return { worst, n };
+  return { worst, n, worstRow };
 }
 
 describe("tracing an invented chart (issue 20 acceptance: within 0.5 % of the axis span)", () => {
@@ -51,8 +53,9 @@ describe("tracing an invented chart (issue 20 acceptance: within 0.5 % of the ax
     const cal = calibrate({ ...clicks(), xScale: "linear", yScale: "linear" });
     expect(cal.residual.xMaxPct).toBeLessThan(1e-9);
     const r = recovery(img, cal);
-    console.log(`tracer recovery, straight PNG: max |error| ${r.worst.toFixed(3)} % of head span over ${r.n} points`);
+    console.log(`tracer recovery, straight PNG: max |error| ${r.worst.toFixed(3)} % of head span over ${r.n} traced points, ${r.worstRow.toFixed(3)} % over the 45 resampled CSV points`);
     expect(r.worst).toBeLessThan(0.5);
+    expect(r.worstRow).toBeLessThan(0.5);
   });
 
   it("recovers them from a rotated and sheared scan with two clicks per axis", () => {
@@ -60,8 +63,9 @@ describe("tracing an invented chart (issue 20 acceptance: within 0.5 % of the ax
     const img = viaPng(drawChart({ skew }));
     const cal = calibrate({ ...clicks(skew), xScale: "linear", yScale: "linear" });
     const r = recovery(img, cal, skew);
-    console.log(`tracer recovery, skewed PNG (2.5°, shear 0.03): max |error| ${r.worst.toFixed(3)} % of head span over ${r.n} points`);
+    console.log(`tracer recovery, skewed PNG (2.5°, shear 0.03): max |error| ${r.worst.toFixed(3)} % of head span over ${r.n} traced points, ${r.worstRow.toFixed(3)} % over the 45 resampled CSV points`);
     expect(r.worst).toBeLessThan(0.5);
+    expect(r.worstRow).toBeLessThan(0.5);
   });
 
   it("a straight-axes calibration misreads the same skewed scan (the affine completion matters)", () => {
