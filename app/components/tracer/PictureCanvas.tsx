@@ -228,9 +228,9 @@ export function PictureCanvas(props: {
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap items-center gap-2 text-sm">
-        <button type="button" className="btn-secondary" onClick={() => zoom(1.25)} aria-label="Zoom in">+</button>
-        <button type="button" className="btn-secondary" onClick={() => zoom(0.8)} aria-label="Zoom out">−</button>
-        <button type="button" className="btn-secondary" onClick={() => setView({ scale: 1, ox: 0, oy: 0 })}>1:1</button>
+        <button type="button" className="btn-quiet" onClick={() => zoom(1.25)} aria-label="Zoom in">+</button>
+        <button type="button" className="btn-quiet" onClick={() => zoom(0.8)} aria-label="Zoom out">−</button>
+        <button type="button" className="btn-quiet" onClick={() => setView({ scale: 1, ox: 0, oy: 0 })}>1:1</button>
         <span className="text-slate-500" data-testid="cursor">
           {(view.scale * 100).toFixed(0)} % · {hover ? `pixel ${hover.u.toFixed(1)}, ${hover.v.toFixed(1)}` : "—"}
         </span>

@@ -106,7 +106,7 @@ export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibratio
       ))}
       <button
         type="button"
-        className="btn-secondary"
+        className="btn-quiet"
         onClick={() => set((x) => {
           const id = Math.max(...x.panels.map((p) => p.id)) + 1;
           return { ...x, panels: [...x.panels, { id, quantity: "efficiency", unit: "%", scale: "linear", refs: [] }], activePanel: id };
@@ -169,7 +169,7 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
           <button
             key={kind}
             type="button"
-            className="btn-secondary"
+            className="btn-quiet"
             data-testid={`add-${kind}`}
             onClick={() => set((x) => {
               const id = Math.max(0, ...x.curves.map((c) => c.id)) + 1;

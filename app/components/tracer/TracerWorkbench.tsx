@@ -122,7 +122,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
       {loadError ? <p className="text-sm text-fail" role="alert">{loadError}</p> : null}
       <div className="flex flex-wrap gap-1" role="toolbar" aria-label="Tracer tools">
         {TOOLS.map(([t, label]) => (
-          <button key={t} type="button" className={t === tool ? "btn" : "btn-secondary"} aria-pressed={t === tool} data-testid={`tool-${t}`} onClick={() => setTool(t)}>
+          <button key={t} type="button" className={t === tool ? "btn" : "btn-quiet"} aria-pressed={t === tool} data-testid={`tool-${t}`} onClick={() => setTool(t)}>
             {label}
           </button>
         ))}
@@ -179,7 +179,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
         </div>
         <textarea readOnly className="field h-32 w-full font-mono text-xs" value={csv} aria-label="Traced points as CSV" data-testid="traced-csv" />
         <div className="flex flex-wrap gap-2">
-          <button type="button" className="btn-secondary" disabled={rows === 0} onClick={download}>
+          <button type="button" className="btn-quiet" disabled={rows === 0} onClick={download}>
             Export the traced points (CSV)
           </button>
           <Form method="post">

@@ -112,7 +112,7 @@ export function drawChart(opts: { skew?: Skew; islands?: boolean } = {}): { widt
 }
 
 /** The chart as a one-page PDF (page 800 × 600 pt, one page pixel = one point, y flipped). */
-export function chartPdf(opts: { islands?: boolean } = {}): Uint8Array {
+export function chartPdf(opts: { islands?: boolean } = {}): Uint8Array<ArrayBuffer> {
   const f = (x: number) => x.toFixed(3);
   let ops = "1 J 1 j\n";
   for (const s of chartStrokes(opts)) {

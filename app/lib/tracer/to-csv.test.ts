@@ -2,7 +2,7 @@
 // mapping. Check values come from the invented curves of test-chart.ts.
 import { describe, expect, it } from "vitest";
 import { analyseCsv } from "~/lib/import";
-import { engineSmooth, resample, tracedCsv, valueAt, type XY } from "./index";
+import { engineSmooth, resample, tracedCsv, tracedRows, valueAt, type XY } from "./index";
 import { K } from "./test-chart";
 
 const units = { flow: "l/s", head: "ft", efficiency: "%", power: "kW", npshr: "m" } as const;
@@ -30,6 +30,12 @@ describe("our CSV from traced points", () => {
     expect(c1.points[0].efficiency).toBeUndefined(); // traced from 10 l/s only
     expect(c1.points[11].efficiency).toBeUndefined(); // traced up to 50 l/s only
     expect(c1.points[5].efficiency).toBeCloseTo((40 + 60 * (5 / 11)) / 100, 3);
+  });
+
+  it("drops traced points left of zero flow (a stroke's end cap at the axis), keeps the rest", () => {
+    const rows = tracedRows([{ model: "Cap", speedRpm: 1450, impellerMm: 200, curves: { head: [{ x: -0.3, y: 30 }, ...dense((x) => 30 - x, 0, 10, 11)] } }], { flow: "m3/h", head: "m", efficiency: "%", power: "kW", npshr: "m" }, 5);
+    expect(rows.slice(1).map((r) => r[5])).toEqual([0, 2.5, 5, 7.5, 10]);
+    expect(analyseCsv(tracedCsv([{ model: "Cap", speedRpm: 1450, impellerMm: 200, curves: { head: [{ x: -0.3, y: 30 }, ...dense((x) => 30 - x, 0, 10, 11)] } }], { flow: "m3/h", head: "m", efficiency: "%", power: "kW", npshr: "m" }, 5)).result.curveSets[0].ok).toBe(true);
   });
 
   it("resamples a noisy trace without bias beyond the noise (quadratic curve, ±0.2 m noise)", () => {

@@ -6,7 +6,8 @@
  * power and NPSHr, traced on their own panels at their own flows, are read at those flows with the
  * engine's interpolation and left empty outside the range they were traced over. Values are
  * converted from the axis units to the format's units (m³/h, m, %, kW, m) with the importer's SI
- * factors (app/lib/import/units-in-headers.ts, NIST SP 811).
+ * factors (app/lib/import/units-in-headers.ts, NIST SP 811). Traced points left of zero flow (the
+ * stroke's end cap at the axis) are dropped, so the curve starts at or after zero flow.
  */
 import { toCsv } from "~/lib/csv";
 import { SI_FACTOR, type Unit } from "~/lib/import";
@@ -40,7 +41,8 @@ const round = (x: number | null, digits: number) => (x == null || !Number.isFini
 export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points = 15): unknown[][] {
   const rows: unknown[][] = [CSV_HEADER];
   for (const s of sets) {
-    const head = s.curves.head ?? [];
+    // A stroke's end cap reaches a pixel or two left of zero flow: those points are not data.
+    const head = (s.curves.head ?? []).filter((p) => p.x >= 0);
     if (head.length < 3) continue;
     for (const p of resample(head, Math.max(3, points))) {
       const at = (q: Exclude<Quantity, "head">, target: Unit) => {
