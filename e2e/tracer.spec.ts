@@ -8,6 +8,11 @@ import { CHART, IMPELLERS, chartPdf, headOf, paper } from "../app/lib/tracer/tes
 // head axis span (the issue's acceptance figure).
 
 test("A distributor traces three impeller curves from a PDF and imports them as a revision", async ({ page }) => {
+  // pdf.js must run under our CSP as it is (its worker from our origin, no eval).
+  const refused: string[] = [];
+  page.on("console", (m) => {
+    if (/Content Security Policy|Setting up fake worker/i.test(m.text())) refused.push(m.text());
+  });
   await signIn(page, "distributor@harrow-vell.example");
   await page.goto("/libraries");
   await page.getByLabel("Name").fill(`Traced ${Date.now().toString(36)}`);
@@ -25,6 +30,8 @@ test("A distributor traces three impeller curves from a PDF and imports them as 
     const [x, y] = paper(q, h);
     await canvas.click({ position: { x, y } });
   };
+
+  expect(refused).toEqual([]);
 
   // Calibrate: two ticks on the flow axis, two on the head axis.
   await page.getByTestId("tool-xref").click();
