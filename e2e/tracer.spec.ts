@@ -24,6 +24,7 @@ test("A distributor traces three impeller curves from a PDF and imports them as 
   await expect(page).toHaveURL(/\/trace\/\d+$/);
   await page.getByTestId("render-scale").selectOption("1"); // one picture pixel per PDF point
   await expect(page.getByTestId("tracer")).toHaveAttribute("data-ready", "yes");
+  await expect(page.getByText("needs JavaScript")).toHaveCount(0); // hydrated: the no-script notice is gone
   const canvas = page.getByTestId("trace-canvas");
   await expect(canvas).toHaveAttribute("width", String(CHART.width));
   const click = async (q: number, h: number) => {
@@ -79,4 +80,26 @@ test("A distributor traces three impeller curves from a PDF and imports them as 
   await page.getByRole("button", { name: "Import 3 curves" }).click();
   await expect(page).toHaveURL(/\/libraries\/\d+\?imported=1$/);
   await expect(page.getByText("traced from invented-chart.pdf, page 1. Traced data is approximate")).toBeVisible();
+});
+
+test.describe("without JavaScript", () => {
+  test.use({ javaScriptEnabled: false });
+  test("A picture is stored by a plain form post; the tracer page says it needs JavaScript; a CSV is refused as a picture", async ({ page }) => {
+    await page.goto("/signin");
+    await page.getByLabel("E-mail").fill("distributor@harrow-vell.example");
+    await page.getByLabel("Password").fill("duty-demo-2026");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.goto("/libraries");
+    await page.getByLabel("Name").fill(`Traced no-JS ${Date.now().toString(36)}`);
+    await page.getByRole("button", { name: "Create library" }).click();
+    await page.getByRole("link", { name: "Trace a curve" }).click();
+    await page.getByTestId("picture-file").setInputFiles({ name: "not-a-picture.pdf", mimeType: "application/pdf", buffer: Buffer.from("model,flow\n1,2\n") });
+    await page.getByRole("button", { name: "Store and open" }).click();
+    await expect(page.getByText("not-a-picture.pdf is not a PDF, PNG or JPEG file.")).toBeVisible();
+    await page.goBack();
+    await page.getByTestId("picture-file").setInputFiles({ name: "invented-chart.pdf", mimeType: "application/pdf", buffer: Buffer.from(chartPdf()) });
+    await page.getByRole("button", { name: "Store and open" }).click();
+    await expect(page).toHaveURL(/\/trace\/\d+$/);
+    await expect(page.getByText("The tracer runs in the browser and needs JavaScript")).toBeVisible();
+  });
 });

@@ -8,6 +8,7 @@ import { UploadRejected } from "~/lib/libraries.server";
 import { getPicture, MAX_TRACED_CSV_BYTES, storeTracedCsv } from "~/lib/tracer/pictures.server";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { FormError, Notice } from "~/components/forms";
+import { JsNotice } from "~/components/tracer/JsNotice";
 import { TracerWorkbench } from "~/components/tracer/TracerWorkbench";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
@@ -58,9 +59,7 @@ export default function TracePicture({ loaderData: d, actionData }: Route.Compon
           {d.picture.type} · SHA-256 {d.picture.sha256.slice(0, 16)}…
         </p>
       </div>
-      <noscript>
-        <Notice>The tracer runs in the browser and needs JavaScript: turn it on to calibrate and trace this picture.</Notice>
-      </noscript>
+      <JsNotice>The tracer runs in the browser and needs JavaScript: turn it on to calibrate and trace this picture.</JsNotice>
       <Notice>{TRACE_CAUTION}</Notice>
       <FormError error={actionData && "error" in actionData ? actionData.error : undefined} />
       <TracerWorkbench

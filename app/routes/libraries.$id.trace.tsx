@@ -4,7 +4,7 @@ import { viewerOf } from "~/lib/viewer.server";
 import { readId } from "~/lib/forms.server";
 import { listPictures, MAX_PICTURE_BYTES } from "~/lib/tracer/pictures.server";
 import { fmtBytes } from "~/components/library-bits";
-import { Notice } from "~/components/forms";
+import { JsNotice } from "~/components/tracer/JsNotice";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -28,9 +28,7 @@ export default function TraceStart({ loaderData: d }: Route.ComponentProps) {
           the points like a CSV file.
         </p>
       </div>
-      <noscript>
-        <Notice>The tracer itself runs in the browser and needs JavaScript. Storing a picture works without it.</Notice>
-      </noscript>
+      <JsNotice>The tracer itself runs in the browser and needs JavaScript. Storing a picture works without it.</JsNotice>
       <section className="panel space-y-3">
         <h2 className="text-lg font-semibold">Bring the picture</h2>
         <form method="post" action={`/libraries/${d.lib.id}/trace/upload`} encType="multipart/form-data" className="flex flex-wrap items-end gap-3">

@@ -52,6 +52,11 @@ export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibratio
   return (
     <section className="panel space-y-3 text-sm">
       <h2 className="font-semibold">1 · Calibrate</h2>
+      <p className="text-xs text-slate-500">
+        Click two known points on the flow axis and two on the active panel’s vertical axis, and type their values. A tilted or sheared
+        scan is read right from these four clicks; three or more clicks per axis (for instance on grid lines at different heights) give a
+        full affine fit, and its residual below shows how well they agree.
+      </p>
       <div className="space-y-1">
         <div className="flex flex-wrap items-center gap-2">
           <strong>Flow axis</strong>

@@ -7,6 +7,7 @@ import { closeDb, db } from "@db/client.server";
 import { libraryRevisions, tracePictures, uploads } from "@db/schema";
 import { analyseStored, createLibrary, getUpload, importUpload, UploadRejected, type Viewer } from "~/lib/libraries.server";
 import { makeMember } from "~/test/harness";
+import { saveCorrectedUpload } from "~/lib/upload-fix.server";
 import { MAX_PICTURE_BYTES, MAX_TRACED_CSV_BYTES, storePicture, storeTracedCsv, pictureBytes } from "./pictures.server";
 import { sniffPicture, TRACE_CAUTION } from "./sniff";
 import { chartPdf } from "./test-chart";
@@ -73,6 +74,16 @@ describe("storeTracedCsv → the ordinary import", () => {
     expect(r.curves).toBe(1);
     const [rev] = await db().select().from(libraryRevisions).where(eq(libraryRevisions.id, r.revisionId));
     expect(rev.note).toBe(`traced from datasheet.pdf, page 3. ${TRACE_CAUTION} checked by hand`);
+  });
+
+  test("a corrected copy of a traced upload (the mapping page's grid) keeps its source", async () => {
+    const pic = await storePicture(viewer, lib, new File([chartPdf()], "fix.pdf"));
+    const up = await storeTracedCsv(viewer, lib, pic, csv, 1);
+    const fixed = await saveCorrectedUpload(viewer, lib, up, [{ line: 2, index: 6, value: "52.5" }]);
+    expect(fixed).not.toBeNull();
+    const [row] = await db().select().from(uploads).where(eq(uploads.id, fixed!));
+    expect(row.source).toBe("traced from fix.pdf, page 1");
+    expect(row.tracePictureId).toBe(pic);
   });
 
   test("a PNG has no page; an empty or oversized CSV is refused", async () => {
