@@ -24,6 +24,10 @@ export default [
   route("libraries/:id/uploads/:uploadId", "routes/libraries.$id.uploads.$uploadId.tsx"),
   route("libraries/:id/export.csv", "routes/libraries.$id.export-csv.ts"),
   route("libraries/:id/export.json", "routes/libraries.$id.export-json.ts"),
+  route("libraries/:id/trace", "routes/libraries.$id.trace.tsx"),
+  route("libraries/:id/trace/upload", "routes/libraries.$id.trace.upload.ts"),
+  route("libraries/:id/trace/:pictureId", "routes/libraries.$id.trace.$pictureId.tsx"),
+  route("libraries/:id/trace/:pictureId/file", "routes/libraries.$id.trace.$pictureId.file.ts"),
   // engineer's workspace
   route("projects", "routes/projects.tsx"),
   route("projects/:id", "routes/projects.$id.tsx"),

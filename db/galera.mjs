@@ -84,6 +84,8 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false }) {
     "--character-set-server=utf8mb4",
     "--collation-server=utf8mb4_unicode_ci",
     "--innodb-buffer-pool-size=128M",
+    // Uploads and tracer pictures are stored whole (up to 20 MB): the default 16 MB packet refused them.
+    "--max-allowed-packet=64M",
     "--innodb-flush-log-at-trx-commit=2",
     // What Galera needs: row-based replication, InnoDB, interleaved auto-increment locks.
     "--binlog-format=ROW",

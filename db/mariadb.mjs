@@ -203,6 +203,8 @@ export async function startLocalServer() {
     "--collation-server=utf8mb4_unicode_ci",
     "--local-infile=1",
     "--innodb-buffer-pool-size=256M",
+    // Uploads and tracer pictures are stored whole (up to 20 MB): the default 16 MB packet refused them.
+    "--max-allowed-packet=64M",
     "--innodb-flush-log-at-trx-commit=2",
   ];
   const child = spawn(which("mariadbd"), args, { stdio: "ignore", detached: true });

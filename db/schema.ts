@@ -220,10 +220,32 @@ export const uploads = mysqlTable(
     sizeBytes: int("size_bytes").notNull(),
     sha256: varchar("sha256", { length: 64 }).notNull(),
     content: longblob("content").notNull(),
+    // Set when the CSV was produced by the curve tracer (issue 20): "traced from <file>, page N".
+    source: varchar("source", { length: 300 }),
+    tracePictureId: ref("trace_picture_id").references(() => tracePictures.id, { onDelete: "set null" }),
     createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
   },
   (t) => [index("uploads_library_idx").on(t.libraryId)],
+);
+
+/** A datasheet picture (PDF, PNG or JPEG) kept as uploaded, with its checksum, for the curve tracer. */
+export const tracePictures = mysqlTable(
+  "trace_pictures",
+  {
+    id: id(),
+    libraryId: ref("library_id")
+      .notNull()
+      .references(() => libraries.id, { onDelete: "cascade" }),
+    filename: varchar("filename", { length: 255 }).notNull(),
+    contentType: varchar("content_type", { length: 60 }).notNull(),
+    sizeBytes: int("size_bytes").notNull(),
+    sha256: varchar("sha256", { length: 64 }).notNull(),
+    content: longblob("content").notNull(),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("trace_pictures_library_idx").on(t.libraryId)],
 );
 
 export const libraryRevisions = mysqlTable(

@@ -13,6 +13,7 @@ import { can, type Role } from "./auth/permissions";
 import type { WorkspaceInfo } from "./auth/guards.server";
 import { sweepPendingUploads } from "./uploads.server";
 import { toCsv } from "./shared/csv";
+import { TRACE_CAUTION } from "./tracer/sniff";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -146,12 +147,12 @@ export async function storeUpload(viewer: Viewer, libraryId: number, file: File)
 }
 
 /** Keeps bytes as an upload of the library with their SHA-256 (the caller checked the library and the bytes). */
-export async function insertUpload(viewer: Viewer, libraryId: number, filename: string, bytes: Buffer): Promise<number> {
+export async function insertUpload(viewer: Viewer, libraryId: number, filename: string, bytes: Buffer, traced: { source: string; tracePictureId: number } | null = null): Promise<number> {
   const sha256 = createHash("sha256").update(bytes).digest("hex");
   await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
   const [{ id }] = await db()
     .insert(uploads)
-    .values({ libraryId, filename: filename.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null })
+    .values({ libraryId, filename: filename.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null, ...(traced ?? {}) })
     .$returningId();
   return id;
 }
@@ -208,7 +209,8 @@ export async function importUpload(
         libraryId: lib.id,
         number: Number(n) + 1,
         uploadId: upload.id,
-        note: note.slice(0, 500),
+        // A traced upload (issue 20) records where it came from and that it is approximate.
+        note: (upload.source ? `${upload.source}. ${TRACE_CAUTION}${note.trim() ? ` ${note.trim()}` : ""}` : note).slice(0, 500),
         modelCount: models.size,
         curveCount: good.length,
         pointCount,

@@ -33,5 +33,7 @@ export async function saveCorrectedUpload(viewer: Viewer, libraryId: number, upl
   if (corrected === original) return null;
   const bytes = Buffer.from(corrected, "utf8");
   if (bytes.length > MAX_UPLOAD_BYTES) throw new UploadRejected("The corrected file would be larger than the upload limit.");
-  return insertUpload(viewer, lib.id, correctedName(upload.filename), bytes);
+  // A corrected copy of traced points keeps where they came from (issue 20).
+  const traced = upload.source && upload.tracePictureId ? { source: upload.source, tracePictureId: upload.tracePictureId } : null;
+  return insertUpload(viewer, lib.id, correctedName(upload.filename), bytes, traced);
 }

@@ -29,7 +29,7 @@ export async function sweepPendingUploads(now = new Date()): Promise<number> {
 export async function getUploadMeta(viewer: Viewer, libraryId: number, uploadId: number) {
   const lib = await getOwnLibraryForWrite(viewer, libraryId);
   const [u] = await db()
-    .select({ id: uploads.id, filename: uploads.filename, sizeBytes: uploads.sizeBytes, sha256: uploads.sha256 })
+    .select({ id: uploads.id, filename: uploads.filename, sizeBytes: uploads.sizeBytes, sha256: uploads.sha256, source: uploads.source })
     .from(uploads)
     .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
   if (!u) throw data("No such upload in this library.", { status: 404 });

@@ -287,6 +287,10 @@ export default function LibraryPage() {
             to 20 MB a file. You map the columns and see every flagged row before anything is imported.
           </p>
           <UploadDrop action={`/libraries/${d.lib.id}/upload`} />
+          <p className="text-sm">
+            Curves only on a PDF datasheet or a scanned page?{" "}
+            <a href={`/libraries/${d.lib.id}/trace`} data-testid="trace-link">Trace a curve</a> from the picture instead.
+          </p>
           {d.pending.length ? (
             <div>
               <h3 className="font-semibold">Waiting for import</h3>

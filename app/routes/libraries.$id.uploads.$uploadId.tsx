@@ -16,6 +16,7 @@ import { readId, readFormSafe } from "~/lib/shared/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
+import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
@@ -39,7 +40,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await context(request, params);
   return {
     lib: { id: c.lib.id, name: c.lib.name },
-    upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256 },
+    upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256, source: c.upload.source },
     unitSystem: c.m.user.unitSystem,
     correctedFrom: Number(new URL(request.url).searchParams.get("from")) || null,
     ...(await analysis(c)),
@@ -166,6 +167,13 @@ export default function UploadPreview() {
       {l.correctedFrom ? (
         <Notice>
           This is the corrected copy of upload {l.correctedFrom} (kept beside the original, which is unchanged). Checked again on the server below.
+        </Notice>
+      ) : null}
+      {l.upload.source ? (
+        <Notice>
+          <span data-testid="traced-source">
+            These points were {l.upload.source}. {TRACE_CAUTION} The revision will record this source.
+          </span>
         </Notice>
       ) : null}
       {d.mappingSource === "saved" ? <Notice>Using the column mapping saved with this library from its last import.</Notice> : null}

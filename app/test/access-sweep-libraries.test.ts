@@ -5,7 +5,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { candidates, libraries, pumpModels, selections, systems, uploads } from "@db/schema";
+import { candidates, libraries, pumpModels, selections, systems, tracePictures, uploads } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
@@ -29,8 +29,14 @@ import * as apiSystemSearch from "~/routes/api.v1.systems.$id.search";
 import * as selectionPage from "~/routes/selections.$id";
 import * as selCsv from "~/routes/selections.$id.export-csv";
 import * as selJson from "~/routes/selections.$id.export-json";
+import * as tracePage from "~/routes/libraries.$id.trace";
+import * as traceUpload from "~/routes/libraries.$id.trace.upload";
+import * as tracePicture from "~/routes/libraries.$id.trace.$pictureId";
+import * as traceFile from "~/routes/libraries.$id.trace.$pictureId.file";
+import { storePicture } from "~/lib/tracer/pictures.server";
+import { chartPdf } from "~/lib/tracer/test-chart";
 
-type Ctx = { a: TestMember; aToken: string; b: TestMember; lib: number; upload: number; model: number; project: number; system: number; candidate: number; selection: number; marker: string };
+type Ctx = { a: TestMember; aToken: string; b: TestMember; lib: number; upload: number; picture: number; model: number; project: number; system: number; candidate: number; selection: number; marker: string };
 let ctx: Ctx;
 
 beforeAll(async () => {
@@ -54,7 +60,8 @@ beforeAll(async () => {
   if (!added.ok) throw new Error(added.reason);
   const selection = await selectCandidate(vb, added.id, marker, "");
   const { token } = await createApiToken({ userId: a.userId, workspaceId: a.workspaceId, name: "sweep", scope: "write" });
-  ctx = { a, aToken: token, b, lib, upload, model: model.id, project, system, candidate: added.id, selection, marker };
+  const picture = await storePicture(vb, lib, new File([chartPdf()], "b.pdf", { type: "application/pdf" }));
+  ctx = { a, aToken: token, b, lib, upload, picture, model: model.id, project, system, candidate: added.id, selection, marker };
 });
 afterAll(() => closeDb());
 
@@ -68,6 +75,10 @@ const PROBES: [string, ReturnType<typeof page>][] = [
   ["POST /libraries/:id/uploads/:uploadId intent=import (B's upload)", page(uploadPage.action, (c) => `/libraries/${c.lib}/uploads/${c.upload}`, (c) => ({ id: String(c.lib), uploadId: String(c.upload) }), () => ({ intent: "import", base: "{}" }))],
   ["POST /systems/:id intent=adjust (B's candidate)", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "adjust", candidateId: String(c.candidate), method: "speed", arrangement: "single", dutyPumps: "1", standbyPumps: "0", serviceFactor: "1" }))],
   ["GET /libraries/:id/uploads/:uploadId", page(uploadPage.loader, (c) => `/libraries/${c.lib}/uploads/${c.upload}`, (c) => ({ id: String(c.lib), uploadId: String(c.upload) }))],
+  ["GET /libraries/:id/trace", page(tracePage.loader, (c) => `/libraries/${c.lib}/trace`, (c) => ({ id: String(c.lib) }))],
+  ["GET /libraries/:id/trace/:pictureId", page(tracePicture.loader, (c) => `/libraries/${c.lib}/trace/${c.picture}`, (c) => ({ id: String(c.lib), pictureId: String(c.picture) }))],
+  ["GET /libraries/:id/trace/:pictureId/file", page(traceFile.loader, (c) => `/libraries/${c.lib}/trace/${c.picture}/file`, (c) => ({ id: String(c.lib), pictureId: String(c.picture) }))],
+  ["POST /libraries/:id/trace/:pictureId intent=import (traced CSV into B's library)", page(tracePicture.action, (c) => `/libraries/${c.lib}/trace/${c.picture}`, (c) => ({ id: String(c.lib), pictureId: String(c.picture) }), () => ({ intent: "import", csv: "model,speed_rpm,impeller_mm,flow_m3h,head_m\nX,2900,200,0,10\nX,2900,200,1,9\nX,2900,200,2,8\n", page: "1" }))],
   ["GET /libraries/:id/export.csv", page(libCsv.loader, (c) => `/libraries/${c.lib}/export.csv`, (c) => ({ id: String(c.lib) }))],
   ["GET /libraries/:id/export.json", page(libJson.loader, (c) => `/libraries/${c.lib}/export.json`, (c) => ({ id: String(c.lib) }))],
   ["GET /projects/:id", page(projectPage.loader, (c) => `/projects/${c.project}`, (c) => ({ id: String(c.project) }))],
@@ -142,6 +153,18 @@ describe("access sweep (libraries, projects, API): workspace A cannot reach work
     const r = await call(uploadRoute.action as unknown as Fn, { path: `/libraries/${ctx.lib}/upload`, params: { id: String(ctx.lib) }, method: "POST", body: fd, cookie: ctx.a.cookie, headers: { accept: "application/json" } });
     expect([403, 404]).toContain(r.status);
     expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1); // only B's own upload
+  });
+  test("POST /libraries/:id/trace/upload (a picture into B's library), also by B's own engineer", async () => {
+    const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0]);
+    const e = await makeMember("engineer", ctx.b.workspaceId);
+    for (const cookie of [ctx.a.cookie, e.cookie]) {
+      const fd = new FormData();
+      fd.append("file", new File([png], "x.png", { type: "image/png" }));
+      const r = await call(traceUpload.action as unknown as Fn, { path: `/libraries/${ctx.lib}/trace/upload`, params: { id: String(ctx.lib) }, method: "POST", body: fd, cookie });
+      expect([403, 404]).toContain(r.status);
+    }
+    expect((await db().select().from(tracePictures).where(eq(tracePictures.libraryId, ctx.lib))).length).toBe(1); // only B's own picture
+    expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1); // no traced CSV either
   });
   for (const [name, make] of API) {
     test(`${name} (Bearer token of A)`, async () => {

@@ -19,6 +19,8 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
 import { recordFieldCheck, shareProject } from "~/lib/fieldchecks.server";
 import { parseCheckFields } from "~/lib/fieldcheck-form";
 import { fieldsForHead } from "./fieldcheck-fixture";
+import { storePicture } from "~/lib/tracer/pictures.server";
+import { chartPdf } from "~/lib/tracer/test-chart";
 import { BASE, call, makeMember, type TestMember } from "./harness";
 
 type Entry = { id?: string; path?: string; file: string; index?: boolean; children?: Entry[] };
@@ -35,7 +37,7 @@ function flatten(entries: Entry[], parent = ""): { id: string; path: string; fil
 const ROUTES = flatten(routeConfig as Entry[]);
 const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]).concat(path.endsWith("*") ? ["*"] : []);
 
-type Ctx = { m: TestMember; token: string; lib: number; upload: number; project: number; system: number; selection: number; check: number; photo: number; invite: string };
+type Ctx = { m: TestMember; token: string; lib: number; upload: number; picture: number; project: number; system: number; selection: number; check: number; photo: number; invite: string };
 let ctx: Ctx;
 
 /** Good values for every path parameter of every route (so bodies and queries reach past the id lookup). */
@@ -45,6 +47,10 @@ const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
   "libraries/:id/uploads/:uploadId": (c) => ({ id: String(c.lib), uploadId: String(c.upload) }),
   "libraries/:id/export.csv": (c) => ({ id: String(c.lib) }),
   "libraries/:id/export.json": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/trace": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/trace/upload": (c) => ({ id: String(c.lib) }),
+  "libraries/:id/trace/:pictureId": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
+  "libraries/:id/trace/:pictureId/file": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
   "projects/:id": (c) => ({ id: String(c.project) }),
   "projects/:id/share": (c) => ({ id: String(c.project) }),
   "systems/:id": (c) => ({ id: String(c.system) }),
@@ -118,7 +124,8 @@ beforeAll(async () => {
   await shareProject(viewer, project, String(other.workspaceId)).catch(() => null);
   const inv = await invite({ workspaceId: m.workspaceId, workspaceName: "W", inviterId: m.userId, inviterName: "W", email: `walk-${Date.now()}@example.test`, role: "viewer" });
   const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "walk", scope: "write" });
-  ctx = { m, token, lib, upload, project, system, selection, check: rec.id, photo: photo.id, invite: inv };
+  const picture = await storePicture(viewer, lib, new File([chartPdf()], "walk.pdf", { type: "application/pdf" }));
+  ctx = { m, token, lib, upload, picture, project, system, selection, check: rec.id, photo: photo.id, invite: inv };
 }, 60_000);
 afterAll(() => closeDb());
 

@@ -1,0 +1,196 @@
+// The tracer's controls beside the picture: axes and panels (calibration with its residual), and
+// the curves (impeller curves and iso-efficiency contours) being traced.
+import type { Calibration, Quantity } from "~/lib/tracer";
+import type { Unit } from "~/lib/import";
+import { QUANTITY_LABEL, UNITS, type Curve, type Panel, type TracerState } from "./model";
+
+const num = (s: string) => (s.trim() === "" ? NaN : Number(s.replace(",", ".")));
+const show = (x: number) => (Number.isFinite(x) ? String(x) : "");
+
+function RefRows(props: { refs: Panel["refs"]; axis: "x" | "y"; testid: string; onValue: (i: number, v: number) => void; onRemove: (i: number) => void }) {
+  if (!props.refs.length) return <p className="text-xs text-slate-500">No clicks yet.</p>;
+  return (
+    <ul className="space-y-1">
+      {props.refs.map((r, i) => (
+        <li key={i} className="flex items-center gap-2 text-xs">
+          <span className="w-24 text-slate-500">
+            ({r.u.toFixed(1)}, {r.v.toFixed(1)})
+          </span>
+          <input
+            className="field w-24"
+            inputMode="decimal"
+            aria-label={`${props.axis === "x" ? "Flow" : "Vertical"} value at click ${i + 1}`}
+            data-testid={`${props.testid}-${i}`}
+            autoFocus={i === props.refs.length - 1 && !Number.isFinite(r.value)}
+            defaultValue={show(r.value)}
+            onChange={(e) => props.onValue(i, num(e.target.value))}
+          />
+          <button type="button" className="text-slate-500 underline" onClick={() => props.onRemove(i)}>
+            remove
+          </button>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function Residual({ cal }: { cal: Calibration | string | undefined }) {
+  if (cal === undefined) return null;
+  if (typeof cal === "string") return <p className="text-xs text-amber-700">{cal}</p>;
+  const r = cal.residual;
+  return (
+    <p className="text-xs text-emerald-800" data-testid="residual">
+      Calibrated ({r.fullAffine ? "full affine fit" : "axes completed from two clicks each"}, {r.refs} references): residual flow {r.xMaxPct.toFixed(2)} %, vertical{" "}
+      {r.yMaxPct.toFixed(2)} % of the span (RMS {r.rmsPct.toFixed(2)} %).
+    </p>
+  );
+}
+
+export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibration | string>; set: (f: (s: TracerState) => TracerState) => void }) {
+  const { s, set } = props;
+  const setPanel = (id: number, f: (p: Panel) => Panel) => set((x) => ({ ...x, panels: x.panels.map((p) => (p.id === id ? f(p) : p)) }));
+  return (
+    <section className="panel space-y-3 text-sm">
+      <h2 className="font-semibold">1 · Calibrate</h2>
+      <p className="text-xs text-slate-500">
+        Click two known points on the flow axis and two on the active panel’s vertical axis, and type their values. A tilted or sheared
+        scan is read right from these four clicks; three or more clicks per axis (for instance on grid lines at different heights) give a
+        full affine fit, and its residual below shows how well they agree.
+      </p>
+      <div className="space-y-1">
+        <div className="flex flex-wrap items-center gap-2">
+          <strong>Flow axis</strong>
+          <select className="field w-auto" value={s.flowUnit} aria-label="Flow unit" onChange={(e) => set((x) => ({ ...x, flowUnit: e.target.value as Unit }))}>
+            {UNITS.flow.map((u) => <option key={u}>{u}</option>)}
+          </select>
+          <select className="field w-auto" value={s.flowScale} aria-label="Flow axis scale" onChange={(e) => set((x) => ({ ...x, flowScale: e.target.value as "linear" | "log" }))}>
+            <option value="linear">linear</option>
+            <option value="log">logarithmic</option>
+          </select>
+        </div>
+        <RefRows
+          refs={s.xRefs}
+          axis="x"
+          testid="xref"
+          onValue={(i, v) => set((x) => ({ ...x, xRefs: x.xRefs.map((r, j) => (j === i ? { ...r, value: v } : r)) }))}
+          onRemove={(i) => set((x) => ({ ...x, xRefs: x.xRefs.filter((_, j) => j !== i) }))}
+        />
+      </div>
+      {s.panels.map((p) => (
+        <div key={p.id} className={`space-y-1 rounded border p-2 ${p.id === s.activePanel ? "border-brand-500" : "border-slate-200"}`}>
+          <div className="flex flex-wrap items-center gap-2">
+            <label className="flex items-center gap-1">
+              <input type="radio" name="active-panel" checked={p.id === s.activePanel} onChange={() => set((x) => ({ ...x, activePanel: p.id }))} />
+              <strong>Panel {p.id}</strong>
+            </label>
+            <select
+              className="field w-auto"
+              value={p.quantity}
+              aria-label={`Panel ${p.id} quantity`}
+              onChange={(e) => setPanel(p.id, (q) => ({ ...q, quantity: e.target.value as Quantity, unit: UNITS[e.target.value as Quantity][0] }))}
+            >
+              {(Object.keys(QUANTITY_LABEL) as Quantity[]).map((q) => <option key={q} value={q}>{QUANTITY_LABEL[q]}</option>)}
+            </select>
+            <select className="field w-auto" value={p.unit} aria-label={`Panel ${p.id} unit`} onChange={(e) => setPanel(p.id, (q) => ({ ...q, unit: e.target.value as Unit }))}>
+              {UNITS[p.quantity].map((u) => <option key={u}>{u}</option>)}
+            </select>
+            <select className="field w-auto" value={p.scale} aria-label={`Panel ${p.id} scale`} onChange={(e) => setPanel(p.id, (q) => ({ ...q, scale: e.target.value as "linear" | "log" }))}>
+              <option value="linear">linear</option>
+              <option value="log">logarithmic</option>
+            </select>
+          </div>
+          <RefRows
+            refs={p.refs}
+            axis="y"
+            testid={`yref-${p.id}`}
+            onValue={(i, v) => setPanel(p.id, (q) => ({ ...q, refs: q.refs.map((r, j) => (j === i ? { ...r, value: v } : r)) }))}
+            onRemove={(i) => setPanel(p.id, (q) => ({ ...q, refs: q.refs.filter((_, j) => j !== i) }))}
+          />
+          <Residual cal={props.cals.get(p.id)} />
+        </div>
+      ))}
+      <button
+        type="button"
+        className="btn-quiet"
+        onClick={() => set((x) => {
+          const id = Math.max(...x.panels.map((p) => p.id)) + 1;
+          return { ...x, panels: [...x.panels, { id, quantity: "efficiency", unit: "%", scale: "linear", refs: [] }], activePanel: id };
+        })}
+      >
+        Add a panel on the same flow axis
+      </button>
+    </section>
+  );
+}
+
+export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) => TracerState) => void }) {
+  const { s, set } = props;
+  const setCurve = (id: number, f: (c: Curve) => Curve) => set((x) => ({ ...x, curves: x.curves.map((c) => (c.id === id ? f(c) : c)) }));
+  const panelName = (id: number) => {
+    const p = s.panels.find((q) => q.id === id);
+    return p ? `${QUANTITY_LABEL[p.quantity]} (panel ${p.id})` : "—";
+  };
+  return (
+    <section className="panel space-y-2 text-sm">
+      <h2 className="font-semibold">2 · Curves</h2>
+      <ul className="space-y-2">
+        {s.curves.map((c) => (
+          <li key={c.id} className={`space-y-1 rounded border p-2 ${c.id === s.activeCurve ? "border-brand-500" : "border-slate-200"}`}>
+            <div className="flex flex-wrap items-center gap-2">
+              <label className="flex items-center gap-1">
+                <input type="radio" name="active-curve" checked={c.id === s.activeCurve} onChange={() => set((x) => ({ ...x, activeCurve: c.id, activePanel: c.panelId }))} />
+                <strong>{c.kind === "contour" ? `Contour ${c.level || "?"} %` : `Curve ${c.id}`}</strong>
+              </label>
+              <span className="text-slate-500">{panelName(c.panelId)} · {c.points.length} points</span>
+              <button type="button" className="text-slate-500 underline" onClick={() => setCurve(c.id, (x) => ({ ...x, points: [] }))}>clear</button>
+              {s.curves.length > 1 ? (
+                <button type="button" className="text-slate-500 underline" onClick={() => set((x) => ({ ...x, curves: x.curves.filter((y) => y.id !== c.id), activeCurve: x.curves.find((y) => y.id !== c.id)!.id }))}>
+                  remove
+                </button>
+              ) : null}
+            </div>
+            {c.kind === "curve" ? (
+              <div className="flex flex-wrap items-center gap-2">
+                <label className="flex items-center gap-1">
+                  Impeller Ø (mm)
+                  <input className="field w-20" inputMode="decimal" data-testid={`impeller-${c.id}`} defaultValue={show(c.impellerMm || NaN)} onChange={(e) => setCurve(c.id, (x) => ({ ...x, impellerMm: num(e.target.value) }))} />
+                </label>
+                <label className="flex items-center gap-1">
+                  Speed (rpm)
+                  <input className="field w-20" inputMode="decimal" defaultValue={show(c.speedRpm)} onChange={(e) => setCurve(c.id, (x) => ({ ...x, speedRpm: num(e.target.value) }))} />
+                </label>
+              </div>
+            ) : (
+              <label className="flex items-center gap-1">
+                Efficiency of this contour (%)
+                <input className="field w-20" inputMode="decimal" data-testid={`level-${c.id}`} defaultValue={show(c.level || NaN)} onChange={(e) => setCurve(c.id, (x) => ({ ...x, level: num(e.target.value) }))} />
+              </label>
+            )}
+          </li>
+        ))}
+      </ul>
+      <div className="flex flex-wrap gap-2">
+        {(["curve", "contour"] as const).map((kind) => (
+          <button
+            key={kind}
+            type="button"
+            className="btn-quiet"
+            data-testid={`add-${kind}`}
+            onClick={() => set((x) => {
+              const id = Math.max(0, ...x.curves.map((c) => c.id)) + 1;
+              const prev = x.curves.find((c) => c.id === x.activeCurve);
+              const curve: Curve = { id, panelId: x.activePanel, kind, impellerMm: kind === "curve" ? prev?.impellerMm ?? 0 : 0, speedRpm: prev?.speedRpm ?? 2900, level: 0, points: [] };
+              return { ...x, curves: [...x.curves, curve], activeCurve: id };
+            })}
+          >
+            {kind === "curve" ? "Add a curve on the active panel" : "Add an iso-efficiency contour"}
+          </button>
+        ))}
+      </div>
+      <p className="text-xs text-slate-500">
+        Curves of one impeller on several panels (head, efficiency, power, NPSHr) share its impeller Ø and speed. Efficiency is read from the
+        contours where they cross a head curve when no efficiency curve is traced for that impeller.
+      </p>
+    </section>
+  );
+}

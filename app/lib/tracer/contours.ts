@@ -1,0 +1,49 @@
+/**
+ * Iso-efficiency contours ("islands") against impeller curves. Pure: no DOM.
+ *
+ * A datasheet with a family of impeller curves prints efficiency as contours of equal efficiency in
+ * the flow–head plane. Where a contour of level η crosses an impeller's head curve, that impeller
+ * runs at efficiency η at that flow. The crossings are found segment by segment (straight-line
+ * intersection of two segments, common practice); the impeller's efficiency curve is then the
+ * crossings in order of flow, read between them with the engine's interpolation (curves.ts).
+ * Coordinates: give both in the same plane (axis space of the calibration: linear, or log10 for a
+ * logarithmic axis) so that straight pixel segments stay straight.
+ */
+import { cleanPoints, valueAt, type XY } from "./curves";
+
+export type Contour = { level: number; points: XY[]; closed: boolean };
+export type Crossing = { x: number; y: number; level: number };
+
+/** Intersection of segments p1→p2 and q1→q2, or null. */
+function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
+  const rx = p2.x - p1.x, ry = p2.y - p1.y, sx = q2.x - q1.x, sy = q2.y - q1.y;
+  const den = rx * sy - ry * sx;
+  if (den === 0) return null;
+  const t = ((q1.x - p1.x) * sy - (q1.y - p1.y) * sx) / den;
+  const u = ((q1.x - p1.x) * ry - (q1.y - p1.y) * rx) / den;
+  if (t < 0 || t > 1 || u < 0 || u > 1) return null;
+  return { x: p1.x + t * rx, y: p1.y + t * ry };
+}
+
+/** Every crossing of the curve (a polyline in flow order) with the contours, in order of flow. */
+export function crossings(curve: readonly XY[], contours: readonly Contour[]): Crossing[] {
+  const c = cleanPoints(curve);
+  const out: Crossing[] = [];
+  for (const k of contours) {
+    const ring = k.closed && k.points.length > 2 ? [...k.points, k.points[0]] : k.points;
+    for (let i = 0; i + 1 < c.length; i++) {
+      for (let j = 0; j + 1 < ring.length; j++) {
+        const p = cross(c[i], c[i + 1], ring[j], ring[j + 1]);
+        if (p) out.push({ ...p, level: k.level });
+      }
+    }
+  }
+  out.sort((a, b) => a.x - b.x);
+  // A contour passing through a shared vertex is found twice: keep one.
+  return out.filter((p, i) => i === 0 || !(p.level === out[i - 1].level && Math.abs(p.x - out[i - 1].x) < 1e-9 * (1 + Math.abs(p.x))));
+}
+
+/** The impeller's efficiency at flow x read from the crossings (null outside their range). */
+export function efficiencyFromContours(xs: readonly Crossing[], x: number): number | null {
+  return valueAt(xs.map((p) => ({ x: p.x, y: p.level })), x);
+}

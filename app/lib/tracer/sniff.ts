@@ -1,0 +1,20 @@
+// What a datasheet picture is, from its first bytes (the client's claim and the file name are not
+// trusted). PDF: "%PDF-" (ISO 32000-1 §7.5.2); PNG: the 8-byte signature (RFC 2083 §3.1); JPEG:
+// FF D8 FF (SOI marker, ITU T.81 Annex B). Pure: also used by the page before sending.
+export type PictureType = "application/pdf" | "image/png" | "image/jpeg";
+
+export function sniffPicture(bytes: Uint8Array): PictureType | null {
+  const b = bytes;
+  if (b.length >= 5 && [0x25, 0x50, 0x44, 0x46, 0x2d].every((x, i) => b[i] === x)) return "application/pdf";
+  if (b.length >= 8 && [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a].every((x, i) => b[i] === x)) return "image/png";
+  if (b.length >= 3 && b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return "image/jpeg";
+  return null;
+}
+
+/** "traced from <file>, page N" (N only for a PDF): the source line kept with the upload and the revision. */
+export function tracedSource(filename: string, type: string, page: number | null): string {
+  const name = filename.replace(/[\r\n\t]/g, " ").slice(0, 200);
+  return type === "application/pdf" && page ? `traced from ${name}, page ${page}` : `traced from ${name}`;
+}
+
+export const TRACE_CAUTION = "Traced data is approximate: check it against the datasheet before relying on a selection.";

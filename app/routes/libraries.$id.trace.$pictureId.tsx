@@ -1,0 +1,73 @@
+import * as v from "valibot";
+import { redirect } from "react-router";
+import type { Route } from "./+types/libraries.$id.trace.$pictureId";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { invalid, readForm, readId } from "~/lib/shared/forms.server";
+import { UploadRejected } from "~/lib/libraries.server";
+import { getPicture, MAX_TRACED_CSV_BYTES, storeTracedCsv } from "~/lib/tracer/pictures.server";
+import { TRACE_CAUTION } from "~/lib/tracer/sniff";
+import { FormError, Notice } from "~/components/forms";
+import { JsNotice } from "~/components/tracer/JsNotice";
+import { TracerWorkbench } from "~/components/tracer/TracerWorkbench";
+
+export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "library.write");
+  const { lib, picture } = await getPicture(viewerOf(m), readId(params.id), readId(params.pictureId));
+  return {
+    lib: { id: lib.id, name: lib.name },
+    picture: { id: picture.id, filename: picture.filename, type: picture.contentType, sha256: picture.sha256 },
+    imperial: m.user.unitSystem === "US",
+  };
+}
+
+const ImportSchema = v.object({
+  intent: v.literal("import"),
+  csv: v.pipe(v.string(), v.minLength(1, "Nothing was traced yet."), v.maxLength(MAX_TRACED_CSV_BYTES, "Too many traced points.")),
+  page: v.optional(v.pipe(v.string(), v.regex(/^\d{1,6}$/, "Bad page number."), v.transform(Number))),
+});
+
+// POST intent=import: the traced points (our CSV, built in the page) become an upload of the library
+// and the user continues on that upload's mapping page: same checks, same report, same import.
+export async function action({ request, params }: Route.ActionArgs) {
+  const m = await requireMember(request, "library.write");
+  const libraryId = readId(params.id);
+  const pictureId = readId(params.pictureId);
+  const r = await readForm(request, ImportSchema);
+  if (!r.ok) throw invalid(r.errors);
+  try {
+    const uploadId = await storeTracedCsv(viewerOf(m), libraryId, pictureId, r.value.csv, r.value.page ?? null);
+    throw redirect(`/libraries/${libraryId}/uploads/${uploadId}`);
+  } catch (e) {
+    if (e instanceof UploadRejected) return { error: e.message };
+    throw e;
+  }
+}
+
+export default function TracePicture({ loaderData: d, actionData }: Route.ComponentProps) {
+  return (
+    <div className="space-y-4">
+      <div>
+        <p className="text-sm">
+          <a href="/libraries">Pump libraries</a> › <a href={`/libraries/${d.lib.id}`}>{d.lib.name}</a> ›{" "}
+          <a href={`/libraries/${d.lib.id}/trace`}>Trace a curve</a> ›
+        </p>
+        <h1 className="text-2xl font-bold text-brand-900">Trace: {d.picture.filename}</h1>
+        <p className="text-xs text-slate-500">
+          {d.picture.type} · SHA-256 {d.picture.sha256.slice(0, 16)}…
+        </p>
+      </div>
+      <JsNotice>The tracer runs in the browser and needs JavaScript: turn it on to calibrate and trace this picture.</JsNotice>
+      <Notice>{TRACE_CAUTION}</Notice>
+      <FormError error={actionData && "error" in actionData ? actionData.error : undefined} />
+      <TracerWorkbench
+        src={`/libraries/${d.lib.id}/trace/${d.picture.id}/file`}
+        type={d.picture.type}
+        filename={d.picture.filename}
+        imperial={d.imperial}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,58 @@
+import type { Route } from "./+types/libraries.$id.trace";
+import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
+import { readId } from "~/lib/shared/forms.server";
+import { listPictures, MAX_PICTURE_BYTES } from "~/lib/tracer/pictures.server";
+import { fmtBytes } from "~/components/library-bits";
+import { JsNotice } from "~/components/tracer/JsNotice";
+
+export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
+
+// GET /libraries/:id/trace — bring a datasheet picture (PDF, PNG or JPEG) to trace curves from.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const m = await requireMember(request, "library.write");
+  const { lib, pictures } = await listPictures(viewerOf(m), readId(params.id));
+  return { lib: { id: lib.id, name: lib.name }, pictures, maxBytes: MAX_PICTURE_BYTES };
+}
+
+export default function TraceStart({ loaderData: d }: Route.ComponentProps) {
+  return (
+    <div className="space-y-6">
+      <div>
+        <p className="text-sm">
+          <a href="/libraries">Pump libraries</a> › <a href={`/libraries/${d.lib.id}`}>{d.lib.name}</a> ›
+        </p>
+        <h1 className="text-2xl font-bold text-brand-900">Trace a curve</h1>
+        <p className="text-sm text-slate-600">
+          From a PDF datasheet or a scanned page: calibrate the axes, follow each curve by clicking or by its colour, then check and import
+          the points like a CSV file.
+        </p>
+      </div>
+      <JsNotice>The tracer itself runs in the browser and needs JavaScript. Storing a picture works without it.</JsNotice>
+      <section className="panel space-y-3">
+        <h2 className="text-lg font-semibold">Bring the picture</h2>
+        <form method="post" action={`/libraries/${d.lib.id}/trace/upload`} encType="multipart/form-data" className="flex flex-wrap items-end gap-3">
+          <label className="space-y-1">
+            <span className="label">PDF, PNG or JPEG, up to {fmtBytes(d.maxBytes)}</span>
+            <input type="file" name="file" accept="application/pdf,image/png,image/jpeg,.pdf,.png,.jpg,.jpeg" required className="block text-sm" data-testid="picture-file" />
+          </label>
+          <button type="submit" className="btn">Store and open</button>
+        </form>
+        <p className="text-xs text-slate-500">The original is kept unchanged with its SHA-256 checksum beside the revisions it leads to.</p>
+      </section>
+      {d.pictures.length ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">Pictures of this library</h2>
+          <ul className="text-sm">
+            {d.pictures.map((p) => (
+              <li key={p.id}>
+                <a href={`/libraries/${d.lib.id}/trace/${p.id}`}>{p.filename}</a> · {p.contentType} · {fmtBytes(p.sizeBytes)} · SHA-256{" "}
+                <code>{p.sha256.slice(0, 12)}…</code>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+    </div>
+  );
+}
