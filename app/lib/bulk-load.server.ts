@@ -67,6 +67,26 @@ export async function bulkLoad(
   }
 }
 
+/**
+ * Runs `fn` with foreign-key checks off on `conn` (one statement each way), for loads whose every
+ * key the caller read back from rows the same transaction wrote. Restored even when `fn` fails
+ * (unless the connection itself is gone: then the first error stands).
+ */
+export async function withoutKeyChecks<T>(conn: PoolConnection, fn: () => Promise<T>): Promise<T> {
+  await conn.query("SET SESSION foreign_key_checks = 0");
+  let failed = false;
+  try {
+    return await fn();
+  } catch (e) {
+    failed = true;
+    throw e;
+  } finally {
+    await conn.query("SET SESSION foreign_key_checks = 1").catch((e: unknown) => {
+      if (!failed) throw e;
+    });
+  }
+}
+
 async function load(conn: PoolConnection, table: string, columns: string[], text: BulkSource, expected: number): Promise<number> {
   const name = `dutymark-${table}.tsv`;
   const r = (await conn.query({

@@ -1,20 +1,32 @@
-// The mapping page's analysis of a stored upload, off the main thread and computed once: a worker
-// thread does the parse/validate (a 200 000-row file takes seconds: it must not stall every other
-// request), and the summary is kept per process by (file hash, saved mapping, mapping asked for),
-// so looking at the page again costs nothing. Each app process keeps its own small cache.
+// Analysis of stored uploads off the main thread: a worker thread decodes, parses and validates (a
+// 200 000-row file takes seconds: it must not stall every other request). The mapping page's summary
+// is kept per process by (file hash, saved mapping, mapping asked for), so looking at the page again
+// costs nothing; imports and the API's report get an import plan (app/lib/libraries/analysis-jobs.ts)
+// from the worker for files over OFF_THREAD_BYTES, and analyse small files in the calling thread.
+// The bytes are copied once and moved (transferred) to the worker; the plan's typed arrays are moved
+// back. Each app process keeps its own worker and small cache.
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import type { UploadSummary } from "./upload-analysis";
+import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./libraries/analysis-jobs";
+
+/** Files up to this size are analysed for imports in the calling thread (tens of milliseconds at most). */
+export const OFF_THREAD_BYTES = 256 * 1024;
 
 export class AnalysisFailed extends Error {
   constructor(
     message: string,
-    public readonly issues: { message: string }[] = [],
+    public readonly issues: { message: string; path?: string[] }[] = [],
+    /** "ValiError" when the mapping itself was refused. */
+    public readonly errorName: string = "Error",
   ) {
     super(message);
     this.name = "AnalysisFailed";
+  }
+  get mappingRefused() {
+    return this.errorName === "ValiError";
   }
 }
 
@@ -23,7 +35,7 @@ const cache = new Map<string, Promise<UploadSummary>>();
 
 let worker: Worker | null = null;
 let seq = 0;
-const pending = new Map<number, { resolve: (s: UploadSummary) => void; reject: (e: Error) => void }>();
+const pending = new Map<number, { resolve: (s: AnalysisOutput) => void; reject: (e: Error) => void }>();
 
 /** The bundled worker next to the server build, else the TypeScript source through tsx's loader (development, tests). */
 function startWorker(): Worker {
@@ -38,12 +50,12 @@ function getWorker(): Worker {
   if (worker) return worker;
   const w = startWorker();
   w.unref(); // never keeps a process alive
-  w.on("message", (m: { id: number; ok: boolean; summary?: UploadSummary; message?: string; issues?: { message: string }[] }) => {
+  w.on("message", (m: { id: number; ok: boolean; out?: AnalysisOutput; name?: string; message?: string; issues?: { message: string; path?: string[] }[] }) => {
     const p = pending.get(m.id);
     if (!p) return;
     pending.delete(m.id);
-    if (m.ok) p.resolve(m.summary!);
-    else p.reject(new AnalysisFailed(m.message ?? "The file could not be analysed.", m.issues));
+    if (m.ok) p.resolve(m.out!);
+    else p.reject(new AnalysisFailed(m.message ?? "The file could not be analysed.", m.issues, m.name));
   });
   const fail = (err: unknown) => {
     worker = null;
@@ -58,12 +70,29 @@ function getWorker(): Worker {
   return w;
 }
 
-function inWorker(bytes: Uint8Array, mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
+/** Runs `job` in the worker. The bytes are copied once into a buffer of their own, which is moved, not cloned. */
+function inWorker(job: AnalysisJob): Promise<AnalysisOutput> {
   return new Promise((resolve, reject) => {
     const id = ++seq;
     pending.set(id, { resolve, reject });
-    getWorker().postMessage({ id, bytes, mappingJson, mapping });
+    const bytes = new Uint8Array(job.bytes);
+    getWorker().postMessage({ id, job: { ...job, bytes } }, [bytes.buffer]);
   });
+}
+
+/**
+ * The import plan (and, when asked, the API's report) of an upload's bytes: in the worker for files
+ * over OFF_THREAD_BYTES, else here. Failures are AnalysisFailed either way.
+ */
+export async function analyseForImport(job: Omit<Extract<AnalysisJob, { kind: "import" }>, "kind">): Promise<ImportAnalysis> {
+  const full = { kind: "import" as const, ...job };
+  if (job.bytes.length > OFF_THREAD_BYTES) return (await inWorker(full)) as ImportAnalysis;
+  try {
+    return runJob(full) as ImportAnalysis;
+  } catch (e) {
+    const err = e as Error & { issues?: { message: string; path?: { key: unknown }[] }[] };
+    throw new AnalysisFailed(err?.message ?? String(e), err?.issues?.map((i) => ({ message: i.message, path: (i.path ?? []).map((p) => String(p.key)) })), err?.name);
+  }
 }
 
 /**
@@ -79,7 +108,7 @@ export function summariseUpload(upload: { id: number; sha256: string }, bytes: (
     cache.set(k, hit); // most recently used last
     return hit;
   }
-  const p = bytes().then((b) => inWorker(b, mappingJson, mapping));
+  const p = bytes().then(async (b) => ((await inWorker({ kind: "summary", bytes: b, mappingJson, mapping })) as { summary: UploadSummary }).summary);
   p.catch(() => cache.delete(k));
   cache.set(k, p);
   while (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);

@@ -12,6 +12,8 @@ import { VISIBILITIES } from "~/lib/constants";
 import { Field, FormError, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
 import { UploadDrop } from "~/components/UploadDrop";
+import { ImportList } from "~/components/ImportList";
+import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
@@ -41,10 +43,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     head: numIn("head", "head"),
     sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",
   };
-  const [models, revisions, pending] = await Promise.all([
+  const [models, revisions, pending, imports] = await Promise.all([
     locked ? Promise.resolve([]) : listModels(viewer, id, filters),
     locked ? Promise.resolve([]) : listRevisions(id),
     writer ? pendingUploads(id) : Promise.resolve([]),
+    writer ? recentImports(id) : Promise.resolve([]),
   ]);
   const modelId = Number(url.searchParams.get("model")) || models[0]?.id;
   const selected = !locked && modelId ? await getModel(viewer, modelId).catch(() => null) : null;
@@ -71,6 +74,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
     imported: url.searchParams.get("imported"),
+    imports,
+    importId: Number(url.searchParams.get("import")) || null,
+    refreshHref: `${url.pathname}${url.search}#imports`,
   };
 }
 
@@ -141,6 +147,7 @@ export default function LibraryPage() {
               </p>
             </div>
             {d.imported ? <Notice>Revision {d.imported} imported.</Notice> : null}
+            {d.importId ? <Notice>Import {d.importId} started: its progress is shown under Imports below; you can leave this page and come back.</Notice> : null}
             <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Filter models">
               <label>
                 <span className="label">Name</span>
@@ -279,6 +286,7 @@ export default function LibraryPage() {
           ) : null}
         </>
       )}
+      {d.writer ? <ImportList imports={d.imports} refreshHref={d.refreshHref} highlight={d.importId} /> : null}
       {d.writer ? (
         <section className="panel space-y-3">
           <h2 className="text-lg font-semibold">Import vendor curves</h2>

@@ -2,7 +2,8 @@ import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/guards.server";
-import { importUpload, UploadRejected } from "~/lib/libraries.server";
+import { prepareImport, UploadRejected } from "~/lib/libraries.server";
+import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/libraries/import-run.server";
 import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
 import type { UploadSummary } from "~/lib/upload-analysis";
@@ -117,7 +118,11 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!mapping) return { error };
   if (form.get("intent") === "import") {
     try {
-      const r = await importUpload(c.viewer, c.libraryId, c.uploadId, mapping, String(form.get("note") ?? ""));
+      const { lib, uploadId, plan } = await prepareImport(c.viewer, c.libraryId, c.uploadId, mapping);
+      const args = { libraryId: lib.id, uploadId, userId: c.viewer.userId || null, plan, note: String(form.get("note") ?? "") };
+      // A big import runs on in the background: the library page shows its progress (and finds it again later).
+      if (plan.points >= BACKGROUND_IMPORT_POINTS) throw redirect(`/libraries/${c.libraryId}?import=${await startImport(args)}#imports`);
+      const r = await runImport(args);
       throw redirect(`/libraries/${c.libraryId}?imported=${r.number}`);
     } catch (e) {
       if (e instanceof UploadRejected) return { error: e.message, ...(await analysis(c, mapping)) };
@@ -306,8 +311,8 @@ export default function UploadPreview() {
           {d.preview.length ? (
             <div className="mt-3">
               <CurvePreview unitSystem={l.unitSystem} title={`Preview of ${l.upload.filename}`} curves={d.preview} />
-              {d.curveSets.length > d.preview.length ? (
-                <p className="text-xs text-slate-500">Chart shows the first {d.preview.length} of {d.curveSets.length} curves.</p>
+              {d.stats.curveSets > d.preview.length ? (
+                <p className="text-xs text-slate-500">Chart shows the first {d.preview.length} of {d.stats.curveSets} curves.</p>
               ) : null}
             </div>
           ) : null}
