@@ -193,11 +193,11 @@ export async function prepareImport(viewer: Viewer, libraryId: number, uploadId:
   const lib = await getOwnLibraryForWrite(viewer, libraryId);
   if (mapping !== undefined) v.parse(MappingSchema, mapping);
   const [u] = await db()
-    .select({ id: uploads.id, content: uploads.content })
+    .select({ id: uploads.id, sizeBytes: uploads.sizeBytes })
     .from(uploads)
     .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
   if (!u) throw data("No such upload in this library.", { status: 404 });
-  const a = await analyseForImport({ bytes: u.content, mappingJson: lib.mappingJson, mapping });
+  const a = await analyseForImport(u, { mappingJson: lib.mappingJson, mapping });
   if (a.mappingRefused) throw new UploadRejected(`This mapping cannot be imported with: ${a.mappingRefused}.`);
   if (!a.plan) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
   return { lib, uploadId: u.id, plan: a.plan };

@@ -9,6 +9,9 @@ import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
+import { eq } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { uploads } from "@db/schema";
 import type { UploadSummary } from "./upload-analysis";
 import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./libraries/analysis-jobs";
 
@@ -70,25 +73,37 @@ function getWorker(): Worker {
   return w;
 }
 
-/** Runs `job` in the worker. The bytes are copied once into a buffer of their own, which is moved, not cloned. */
-function inWorker(job: AnalysisJob): Promise<AnalysisOutput> {
+type JobWithoutBytes = { [K in AnalysisJob["kind"]]: Omit<Extract<AnalysisJob, { kind: K }>, "bytes"> }[AnalysisJob["kind"]];
+
+/**
+ * Runs `job` in the worker on `source`: bytes (copied once into a buffer of their own, which is
+ * moved, not cloned), or a stored upload's id, whose bytes the worker reads from the database itself
+ * (so an 11 MB blob never passes through this thread). The caller has checked access to the upload.
+ */
+function inWorker(job: JobWithoutBytes, source: Uint8Array | { uploadId: number }): Promise<AnalysisOutput> {
   return new Promise((resolve, reject) => {
     const id = ++seq;
     pending.set(id, { resolve, reject });
-    const bytes = new Uint8Array(job.bytes);
-    getWorker().postMessage({ id, job: { ...job, bytes } }, [bytes.buffer]);
+    if (source instanceof Uint8Array) {
+      const bytes = new Uint8Array(source);
+      getWorker().postMessage({ id, job: { ...job, bytes } }, [bytes.buffer]);
+    } else getWorker().postMessage({ id, job, uploadId: source.uploadId });
   });
 }
 
 /**
- * The import plan (and, when asked, the API's report) of an upload's bytes: in the worker for files
- * over OFF_THREAD_BYTES, else here. Failures are AnalysisFailed either way.
+ * The import plan (and, when asked, the API's report) of a stored upload: in the worker (which reads
+ * the bytes itself) for files over OFF_THREAD_BYTES, else here. Failures are AnalysisFailed either way.
+ * The caller has checked that the viewer may use the upload.
  */
-export async function analyseForImport(job: Omit<Extract<AnalysisJob, { kind: "import" }>, "kind">): Promise<ImportAnalysis> {
-  const full = { kind: "import" as const, ...job };
-  if (job.bytes.length > OFF_THREAD_BYTES) return (await inWorker(full)) as ImportAnalysis;
+export async function analyseForImport(
+  upload: { id: number; sizeBytes: number },
+  job: Omit<Extract<AnalysisJob, { kind: "import" }>, "kind" | "bytes">,
+): Promise<ImportAnalysis> {
+  if (upload.sizeBytes > OFF_THREAD_BYTES) return (await inWorker({ kind: "import", ...job }, { uploadId: upload.id })) as ImportAnalysis;
+  const [row] = await db().select({ content: uploads.content }).from(uploads).where(eq(uploads.id, upload.id));
   try {
-    return runJob(full) as ImportAnalysis;
+    return runJob({ kind: "import", ...job, bytes: row?.content ?? new Uint8Array() }) as ImportAnalysis;
   } catch (e) {
     const err = e as Error & { issues?: { message: string; path?: { key: unknown }[] }[] };
     throw new AnalysisFailed(err?.message ?? String(e), err?.issues?.map((i) => ({ message: i.message, path: (i.path ?? []).map((p) => String(p.key)) })), err?.name);
@@ -96,11 +111,12 @@ export async function analyseForImport(job: Omit<Extract<AnalysisJob, { kind: "i
 }
 
 /**
- * Summary of an upload's analysis. `upload.sha256` identifies the bytes; `bytes()` fetches them
- * only when the summary is not cached (the blob is never read for a repeat view). Rejects with
+ * Summary of an upload's analysis. `upload.sha256` identifies the bytes; they are fetched only when
+ * the summary is not cached (the blob is never read for a repeat view): by `bytes()`, or with
+ * "stored" by the worker from the database (never through this thread). Rejects with
  * AnalysisFailed on a mapping that cannot work.
  */
-export function summariseUpload(upload: { id: number; sha256: string }, bytes: () => Promise<Uint8Array>, mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
+export function summariseUpload(upload: { id: number; sha256: string }, bytes: (() => Promise<Uint8Array>) | "stored", mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
   const k = `${upload.id}|${upload.sha256}|${mappingJson ?? ""}|${mapping === undefined ? "" : JSON.stringify(mapping)}`;
   const hit = cache.get(k);
   if (hit) {
@@ -108,7 +124,8 @@ export function summariseUpload(upload: { id: number; sha256: string }, bytes: (
     cache.set(k, hit); // most recently used last
     return hit;
   }
-  const p = bytes().then(async (b) => ((await inWorker({ kind: "summary", bytes: b, mappingJson, mapping })) as { summary: UploadSummary }).summary);
+  const job = { kind: "summary" as const, mappingJson, mapping };
+  const p = (bytes === "stored" ? inWorker(job, { uploadId: upload.id }) : bytes().then((b) => inWorker(job, b))).then((out) => (out as { summary: UploadSummary }).summary);
   p.catch(() => cache.delete(k));
   cache.set(k, p);
   while (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);

@@ -2,11 +2,21 @@
 // the mapping page's summary and the import plan (app/lib/libraries/analysis-jobs.ts). Bundled to
 // build/server/upload-analysis-worker.mjs by react-router.config.ts (buildEnd); run through tsx
 // from source in development and tests.
+// With an upload id instead of bytes, the worker reads the stored bytes itself (its own small pool),
+// so a big blob never passes through the main thread.
 import { parentPort } from "node:worker_threads";
+import { getPool } from "../../db/client.server";
 import { runJob, transferablesOf, type AnalysisJob } from "./libraries/analysis-jobs";
 
-parentPort?.on("message", ({ id, job }: { id: number; job: AnalysisJob }) => {
+async function storedBytes(uploadId: number): Promise<Uint8Array> {
+  const rows = (await getPool().query("SELECT content FROM uploads WHERE id = ?", [uploadId])) as { content: Uint8Array }[];
+  if (!rows[0]) throw new Error("The upload is gone.");
+  return rows[0].content;
+}
+
+parentPort?.on("message", async ({ id, job, uploadId }: { id: number; job: AnalysisJob; uploadId?: number }) => {
   try {
+    if (uploadId !== undefined) job = { ...job, bytes: await storedBytes(uploadId) };
     const out = runJob(job);
     parentPort!.postMessage({ id, ok: true, out }, transferablesOf(out));
   } catch (e) {

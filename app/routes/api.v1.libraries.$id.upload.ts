@@ -1,12 +1,12 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.upload";
 import { requireApi } from "~/lib/guards.server";
-import { getUpload, storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { storeUpload, UploadRejected } from "~/lib/libraries.server";
 import { AnalysisFailed, analyseForImport } from "~/lib/upload-analysis.server";
 import { runImport } from "~/lib/libraries/import-run.server";
 import { badRequest, problem } from "~/lib/problem.server";
 import { asProblem } from "~/lib/api-errors.server";
-import { discardUpload } from "~/lib/uploads.server";
+import { discardUpload, getUploadMeta } from "~/lib/uploads.server";
 import { IdField, readFormSafe } from "~/lib/forms.server";
 
 class MappingRefused extends Error {}
@@ -42,10 +42,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     const uploadId = await storeUpload(viewer, id.output, file);
     // Decoding, parsing and validating happen once, in the analysis worker for big files (never on
     // the main thread): the report and, with import=1, the plan the import writes.
-    const { upload, lib } = await getUpload(viewer, id.output, uploadId);
+    const { upload, lib } = await getUploadMeta(viewer, id.output, uploadId);
     let analysis;
     try {
-      analysis = await analyseForImport({ bytes: upload.content, mappingJson: lib.mappingJson, mapping, policy: policy ?? undefined, report: true });
+      analysis = await analyseForImport(upload, { mappingJson: lib.mappingJson, mapping, policy: policy ?? undefined, report: true });
     } catch (e) {
       if (e instanceof AnalysisFailed && e.mappingRefused) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).join(".")}`, message: i.message })) });
       throw e;

@@ -4,7 +4,7 @@ import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/guards.server";
 import { prepareImport, UploadRejected } from "~/lib/libraries.server";
 import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/libraries/import-run.server";
-import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
+import { getUploadMeta } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
 import type { UploadSummary } from "~/lib/upload-analysis";
 import {
@@ -22,7 +22,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload
 
 /** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
 const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
-  summariseUpload(c.upload, () => uploadBytes(c.upload.id), c.lib.mappingJson, mapping).catch((e) => {
+  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping).catch((e) => {
     if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
     throw e;
   });

@@ -60,22 +60,8 @@ export async function writeImport(
       ]);
       await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length);
       const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
-      const v = plan.values;
-      const setRows = Array.from({ length: curves }, (_, i) => {
-        const a = plan.starts[i], b = plan.starts[i + 1];
-        let lo = Infinity, hi = -Infinity;
-        for (let k = a; k < b; k++) {
-          const h = v[k * 5 + 1];
-          if (h < lo) lo = h;
-          if (h > hi) hi = h;
-        }
-        const name = plan.models[plan.setModel[i]].name;
-        const modelId = modelIds.get(name.slice(0, 160));
-        if (modelId === undefined) throw new Error(`import: model ${name} was not written`);
-        const opt = (x: number) => (x === x ? x : null);
-        return [modelId, revisionId, opt(plan.setSpeed[i]), opt(plan.setImpeller[i]), v[a * 5], v[(b - 1) * 5], hi, lo, b - a];
-      });
-      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], bulkText(setRows), setRows.length);
+      for (const m of plan.models) if (!modelIds.has(m.name.slice(0, 160))) throw new Error(`import: model ${m.name} was not written`);
+      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], () => setsText(plan, modelIds, revisionId), curves);
       // Curve sets come back in insertion order (ascending id within this revision).
       const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
       if (setIds.length !== curves) throw new Error(`import: expected ${curves} curve sets, found ${setIds.length}`);
@@ -90,6 +76,32 @@ export async function writeImport(
   });
 }
 
+const SETS_PER_PIECE = 2000;
+const optField = (x: number) => (x === x ? String(x) : "\\N");
+
+/** Curve sets as LOAD DATA text, in pieces (the stream takes one per turn of the event loop). */
+function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
+  const v = plan.values;
+  const curves = plan.setModel.length;
+  let s = "";
+  for (let i = 0; i < curves; i++) {
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    let lo = Infinity, hi = -Infinity;
+    for (let k = a; k < b; k++) {
+      const h = v[k * 5 + 1];
+      if (h < lo) lo = h;
+      if (h > hi) hi = h;
+    }
+    const modelId = modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))!;
+    s += `${modelId}\t${revisionId}\t${optField(plan.setSpeed[i])}\t${optField(plan.setImpeller[i])}\t${v[a * 5]}\t${v[(b - 1) * 5]}\t${hi}\t${lo}\t${b - a}\n`;
+    if (i % SETS_PER_PIECE === SETS_PER_PIECE - 1) {
+      yield s;
+      s = "";
+    }
+  }
+  if (s) yield s;
+}
+
 /**
  * Curve points as LOAD DATA text straight from the plan's typed arrays, in pieces of about
  * POINTS_PER_PIECE points: the stream hands each piece to the server while the next is made (a few
@@ -97,7 +109,7 @@ export async function writeImport(
  */
 export function* pointsText(plan: Pick<ImportPlan, "starts" | "values">, setIds: number[], progress?: ProgressSink): Generator<string> {
   const v = plan.values;
-  const opt = (x: number) => (x === x ? String(x) : "\\N");
+  const opt = optField;
   let s = "";
   let inPiece = 0;
   let done = 0;
