@@ -4,7 +4,7 @@
 import { Form, useNavigation } from "react-router";
 import type { Route } from "./+types/dev.mailbox";
 import { Fragment, type ReactNode } from "react";
-import { readFormSafe } from "~/lib/forms.server";
+import { readFormSafe, readQuery } from "~/lib/forms.server";
 import {
   clearMailbox,
   flushOutbox,
@@ -26,8 +26,8 @@ const errorText = (err: unknown) => (err instanceof Error ? err.message : String
 export async function loader({ request }: Route.LoaderArgs) {
   if (!mailboxEnabled()) notFound();
   const url = new URL(request.url);
-  const to = url.searchParams.get("to")?.trim() ?? "";
-  const open = url.searchParams.get("open") ?? "";
+  const to = readQuery(url, "to");
+  const open = readQuery(url, "open");
   let messages: MailboxMessage[] = [];
   let mailboxError: string | null = null;
   try {

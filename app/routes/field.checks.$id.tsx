@@ -1,8 +1,9 @@
+import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
-import { readId } from "~/lib/forms.server";
+import { QueryFlag, readId, readQuery } from "~/lib/forms.server";
 import { can } from "~/lib/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks.server";
 import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
@@ -30,7 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     photos: c.photos,
     versions: c.versions,
     latest: c.latest,
-    justRecorded: url.searchParams.get("recorded") === "1",
+    justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
     unitSystem: m.user.unitSystem as UnitSystem,
   };
 }

@@ -7,7 +7,7 @@ import { viewerOf } from "~/lib/viewer.server";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
 import { can } from "~/lib/permissions";
-import { invalid, Name, readForm, readId, readFormSafe } from "~/lib/forms.server";
+import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/forms.server";
 import { VISIBILITIES } from "~/lib/constants";
 import { Field, FormError, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
@@ -18,6 +18,20 @@ import { CurvePreview } from "~/components/CurvePreview";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
+/** The page's query string: filters, the model shown, and what an import just did (odd values fall back). */
+const LibraryQuery = v.object({
+  q: QueryText(),
+  type: QueryText(),
+  size: QueryText(),
+  speed: QueryText(40),
+  flow: QueryText(40),
+  head: QueryText(40),
+  sort: QueryText(10),
+  model: QueryId,
+  imported: QueryText(12),
+  import: QueryId,
+});
+
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
   const viewer = viewerOf(m);
@@ -27,9 +41,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const owner = lib.access === "owner";
   const writer = owner && can(m.role, "library.write");
   const url = new URL(request.url);
+  const query = readQuery(url, LibraryQuery);
   const sys = m.user.unitSystem as "SI" | "US";
-  const qp = (k: string) => url.searchParams.get(k)?.trim() ?? "";
-  const numIn = (k: string, q: "flow" | "head") => {
+  const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
+  const numIn = (k: "flow" | "head", q: "flow" | "head") => {
     const x = Number(qp(k).replace(",", "."));
     return Number.isFinite(x) && x > 0 ? toSI(q, UNIT_SYSTEMS[sys][q], x) : undefined;
   };
@@ -49,7 +64,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     writer ? pendingUploads(id) : Promise.resolve([]),
     writer ? recentImports(id) : Promise.resolve([]),
   ]);
-  const modelId = Number(url.searchParams.get("model")) || models[0]?.id;
+  const modelId = query.model || models[0]?.id;
   const selected = !locked && modelId ? await getModel(viewer, modelId).catch(() => null) : null;
   return {
     lib: { id: lib.id, name: lib.name, description: lib.description, visibility: lib.visibility, owner: lib.ownerName, access: lib.access },
@@ -73,9 +88,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     curves: selected?.curves ?? [],
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
-    imported: url.searchParams.get("imported"),
+    imported: query.imported,
     imports,
-    importId: Number(url.searchParams.get("import")) || null,
+    importId: query.import,
     refreshHref: `${url.pathname}${url.search}#imports`,
   };
 }

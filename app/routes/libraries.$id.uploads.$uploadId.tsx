@@ -13,7 +13,7 @@ import {
 } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/upload-fix.server";
 import { FixGrid } from "~/components/FixGrid";
-import { readId, readFormSafe } from "~/lib/forms.server";
+import { QueryId, readId, readFormSafe, readQuery } from "~/lib/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
@@ -42,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256 },
     unitSystem: c.m.user.unitSystem,
-    correctedFrom: Number(new URL(request.url).searchParams.get("from")) || null,
+    correctedFrom: readQuery(request.url, v.object({ from: QueryId })).from,
     ...(await analysis(c)),
   };
 }

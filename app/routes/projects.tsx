@@ -5,14 +5,14 @@ import { requireMember } from "~/lib/guards.server";
 import { createProject, listProjects } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { can } from "~/lib/permissions";
-import { invalid, Name, readForm } from "~/lib/forms.server";
+import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/forms.server";
 import { Field } from "~/components/forms";
 
 export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const archived = new URL(request.url).searchParams.get("archived") === "1";
+  const { archived } = readQuery(request.url, v.object({ archived: QueryFlag }));
   return { list: await listProjects(viewerOf(m), { archived }), canWrite: can(m.role, "project.write"), archived, workspace: m.workspace.name };
 }
 
