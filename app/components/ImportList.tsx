@@ -48,7 +48,7 @@ export function ImportList({ imports, refreshHref, highlight }: { imports: Impor
                 {i.status === "done" ? `${i.pointsTotal.toLocaleString("en-GB")} points` : `${i.pointsWritten.toLocaleString("en-GB")} of ${i.pointsTotal.toLocaleString("en-GB")} points written`}
                 {i.status === "running" ? " (kept only when all are written)" : ""}
               </span>
-              <div className="mt-1 h-2 w-full max-w-md rounded bg-slate-100" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={i.status === "done" ? 100 : pct}>
+              <div className="mt-1 h-2 w-full max-w-md rounded bg-slate-100" role="progressbar" aria-label={`Import ${i.id} progress`} aria-valuemin={0} aria-valuemax={100} aria-valuenow={i.status === "done" ? 100 : pct}>
                 <div className={`h-2 rounded ${bad ? "bg-fail" : "bg-brand-700"}`} style={{ width: `${i.status === "done" ? 100 : bad ? 100 : pct}%` }} />
               </div>
               {bad && i.message ? <p className="text-fail">{i.message}</p> : null}
