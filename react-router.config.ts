@@ -13,6 +13,7 @@ export default {
       entryPoints: ["app/lib/upload-analysis.worker.ts"],
       outfile: path.join(reactRouterConfig.buildDirectory, "server", "upload-analysis-worker.mjs"),
       bundle: true,
+      packages: "external", // node_modules at run time, as for the server build (the worker reads uploads through the mariadb connector)
       platform: "node",
       format: "esm",
       target: "node20",

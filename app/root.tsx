@@ -18,17 +18,9 @@ import { currentMembership } from "~/lib/auth/guards.server";
 import { problem } from "~/lib/shared/problem.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
 import { databaseTrouble } from "~/lib/shared/health.server";
-
-/**
- * Bodies that declare more than these sizes are refused before any action reads them (413). The
- * bytes actually read (chunked bodies too) are counted by app/serve.mjs against the same table.
- */
-const BODY_LIMITS: [RegExp, number][] = [
-  [/\/upload$/, 25 * 1024 * 1024],
-  [/\/photos$/, 12 * 1024 * 1024],
-  [/^\/api\/stripe\/webhook$/, 512 * 1024],
-];
-const DEFAULT_BODY_LIMIT = 1024 * 1024;
+// Bodies that declare more than their limit are refused before any action reads them (413); the
+// bytes actually read (chunked bodies too) are counted by app/serve.mjs against the same table.
+import { bodyLimitFor } from "~/lib/shared/body-limits.mjs";
 
 export const middleware: Route.MiddlewareFunction[] = [
   async ({ request }, next) => {
@@ -41,7 +33,7 @@ export const middleware: Route.MiddlewareFunction[] = [
       throw data(refusal, { status: 403 });
     }
     const length = Number(request.headers.get("content-length") ?? 0);
-    const limit = BODY_LIMITS.find(([re]) => re.test(url.pathname))?.[1] ?? DEFAULT_BODY_LIMIT;
+    const limit = bodyLimitFor(url.pathname);
     if (length > limit) {
       const detail = `The request is too large (${(length / 1048576).toFixed(1)} MB; the limit here is ${(limit / 1048576).toFixed(0)} MB).`;
       if (isApi) throw problem({ title: "Payload Too Large", status: 413, detail });

@@ -14,6 +14,10 @@ import express from "express";
 import compression from "compression";
 import helmet from "helmet";
 import { createRequestHandler } from "@react-router/express";
+// Body limits by path, counted on the bytes read: one table shared with app/root.tsx (which refuses
+// the same sizes up front by Content-Length). The calculators (calcAction) also read at most their
+// own limit themselves.
+import { bodyLimitFor } from "./lib/shared/body-limits.mjs";
 
 const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
 let build;
@@ -34,19 +38,6 @@ const { port, host, trustProxy } = settings;
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
 /** Read by app/entry.server.tsx; always overwritten here. */
 export const CSP_NONCE_HEADER = "x-dutymark-csp-nonce";
-
-/**
- * Body limits by path, counted on the bytes read (app/root.tsx refuses the same sizes up front by
- * Content-Length; keep the two tables equal). The calculators (calcAction) also read at most their
- * own limit themselves.
- */
-const BODY_LIMITS = [
-  [/\/upload$/, 25 * 1024 * 1024],
-  [/\/photos$/, 12 * 1024 * 1024],
-  [/^\/api\/stripe\/webhook$/, 512 * 1024],
-];
-const DEFAULT_BODY_LIMIT = 1024 * 1024;
-const bodyLimitFor = (pathname) => BODY_LIMITS.find(([re]) => re.test(pathname))?.[1] ?? DEFAULT_BODY_LIMIT;
 
 function originOf(url) {
   try {

@@ -268,6 +268,33 @@ export const libraryRevisions = mysqlTable(
   (t) => [uniqueIndex("library_revisions_num_uq").on(t.libraryId, t.number)],
 );
 
+/**
+ * One import of an upload into a new revision, and how far it got: written outside the import's own
+ * transaction (so other requests see it while it runs); `points_written` advances per batch streamed
+ * to the server. status: running | done | failed. A running row whose updated_at stops moving belongs
+ * to an import whose process went away (its transaction was rolled back with it).
+ */
+export const imports = mysqlTable(
+  "imports",
+  {
+    id: id(),
+    libraryId: ref("library_id")
+      .notNull()
+      .references(() => libraries.id, { onDelete: "cascade" }),
+    uploadId: ref("upload_id").references(() => uploads.id, { onDelete: "set null" }),
+    status: varchar("status", { length: 12 }).notNull().default("running"),
+    pointsTotal: int("points_total").notNull().default(0),
+    pointsWritten: int("points_written").notNull().default(0),
+    revisionId: ref("revision_id").references(() => libraryRevisions.id, { onDelete: "set null" }),
+    revisionNumber: int("revision_number"),
+    message: varchar("message", { length: 500 }).notNull().default(""),
+    createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: datetime("updated_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+  },
+  (t) => [index("imports_library_idx").on(t.libraryId, t.id)],
+);
+
 export const pumpModels = mysqlTable(
   "pump_models",
   {

@@ -1,8 +1,8 @@
 /**
  * Import benchmark: 100 000 curve points (fixtures/csv/make-big.ts, invented "Nordquay" data,
  * long SI layout, 10 points per curve → 10 000 curve sets of 2 500 models) through
- *   (a) the full service path importUpload (parse + validate + one transaction: revision, models,
- *       curve sets, batched multi-row INSERTs of points, commit),
+ *   (a) the full service path importUpload (parse + validate in the analysis worker, then one
+ *       transaction: revision, models, curve sets and points by LOAD DATA LOCAL INFILE, commit),
  *   (b) the pure point insert alone (insertPoints on one connection, in a transaction, commit),
  *       into curve_points (with its FK) and into a scratch copy without FK,
  *   (c) MariaDB's own LOAD DATA LOCAL INFILE of the same 100 000 rows into the scratch copy
@@ -26,6 +26,7 @@ import { makeBigCsv } from "../../fixtures/csv/make-big";
 import { analyseCsv } from "~/lib/import";
 import { analyseStored, createLibrary, getUpload, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries.server";
 import { workspacesOf } from "~/lib/auth/guards.server";
+import { stopAnalysisWorker } from "~/lib/upload-analysis.server";
 import { makeMember } from "~/test/harness";
 
 export interface BenchRow {
@@ -60,6 +61,11 @@ export async function runImportBench(points = 100_000, runs = 1): Promise<BenchR
       rows.push({ label: `parse+validate only (analyseCsv, first call)${tag}`, rows: parse.out.result.stats.pointsAccepted, seconds: parse.seconds });
       const warm = await time(() => analyseCsv(csv));
       rows.push({ label: `parse+validate only (analyseCsv, again)${tag}`, rows: warm.out.result.stats.pointsAccepted, seconds: warm.seconds });
+      // CPU time of this thread's process for a warm parse+validate (the machine is shared: wall time includes waiting)
+      const c0 = process.cpuUsage();
+      const cpuParse = analyseCsv(csv);
+      const c1 = process.cpuUsage(c0);
+      rows.push({ label: `parse+validate only, CPU time (analyseCsv)${tag}`, rows: cpuParse.result.stats.pointsAccepted, seconds: (c1.user + c1.system) / 1e6 });
       const full = await time(() => analyseCsv(csv, undefined, { fast: false }));
       rows.push({ label: `parse+validate, full path (no fast path)${tag}`, rows: full.out.result.stats.pointsAccepted, seconds: full.seconds });
 
@@ -208,18 +214,21 @@ export function formatTable(rows: BenchRow[]): string {
 if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
   const args = process.argv.slice(2);
   const runsAt = args.indexOf("--runs");
-  const runs = runsAt >= 0 ? Number(args[runsAt + 1]) : 1;
+  const runs = runsAt >= 0 ? Number(args[runsAt + 1]) : 3; // the machine is shared: three runs, the median ratio
   const points = Number(args.find((a, i) => /^\d+$/.test(a) && i !== runsAt + 1) ?? 100_000);
   runImportBench(points, runs)
     .then(async (rows) => {
       console.log(`import benchmark, ${points.toLocaleString("en-GB")} points (goal: (a) ≥ 0.60× LOAD DATA; parse+validate ≥ 1 000 000 rows/s)\n`);
       console.log(formatTable(rows));
       const rate = (prefix: string) => rows.filter((r) => r.label.startsWith(prefix)).map((r) => r.rows / r.seconds);
-      const a = rate("(a)"), c = rate("(c)"), warm = rate("parse+validate only (analyseCsv, again)");
+      const a = rate("(a)"), c = rate("(c)"), warm = rate("parse+validate only (analyseCsv, again)"), cpu = rate("parse+validate only, CPU time");
+      const ratios = a.map((x, i) => x / c[i]).sort((x, y) => x - y);
       console.log(
         `\nratio (a) service import / (c) LOAD DATA LOCAL INFILE: ${a.map((x, i) => `${(x / c[i]).toFixed(2)}×`).join(", ")} (goal ≥ 0.60×)` +
-          ` · parse+validate (warm): ${warm.map((x) => `${Math.round(x).toLocaleString("en-GB")} rows/s`).join(", ")} (goal ≥ 1 000 000)`,
+          ` · median ${ratios[ratios.length >> 1].toFixed(2)}×` +
+          ` · parse+validate (warm): ${warm.map((x) => `${Math.round(x).toLocaleString("en-GB")} rows/s`).join(", ")} wall, ${cpu.map((x) => `${Math.round(x).toLocaleString("en-GB")} rows/s`).join(", ")} CPU (goal ≥ 1 000 000)`,
       );
+      await stopAnalysisWorker();
       await closeDb();
     })
     .catch(async (err) => {

@@ -4,16 +4,16 @@ import { createHash } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
-import { db, withTransaction } from "@db/client.server";
+import * as v from "valibot";
+import { db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, selections, uploads, workspaces, type Visibility } from "@db/schema";
-import { bulkField, bulkLoad, bulkText } from "./bulk-load.server";
-import { analyseCsv, decodeBytes, looksBinary } from "./import";
-import { encodingOf } from "./upload-analysis";
+import { decodeBytes, looksBinary, MappingSchema } from "./import";
+import { analyseForImport } from "./upload-analysis.server";
+import { runImport } from "./libraries/import-run.server";
 import { can, type Role } from "./auth/permissions";
 import type { WorkspaceInfo } from "./auth/guards.server";
 import { sweepPendingUploads } from "./uploads.server";
 import { toCsv } from "./shared/csv";
-import { TRACE_CAUTION } from "./tracer/sniff";
 
 export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
@@ -164,8 +164,18 @@ export async function getUpload(viewer: Viewer, libraryId: number, uploadId: num
     .from(uploads)
     .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
   if (!u) throw data("No such upload in this library.", { status: 404 });
-  const decoded = decodeBytes(u.content);
-  return { lib, upload: u, text: decoded.text, decoded };
+  // decoded only when asked (the import and the API never decode a big file on the main thread)
+  let decoded: ReturnType<typeof decodeBytes> | null = null;
+  return {
+    lib,
+    upload: u,
+    get decoded() {
+      return (decoded ??= decodeBytes(u.content));
+    },
+    get text() {
+      return this.decoded.text;
+    },
+  };
 }
 
 // The analysis of a stored upload is pure and also runs in the mapping page's worker thread: it
@@ -175,8 +185,28 @@ export { analyseStored, encodingOf, savedMappingFor, type StoredAnalysis } from 
 const POINT_BATCH = 5000; // insertPoints (kept for the benchmark's comparison rows)
 
 /**
+ * Checks the mapping, analyses the upload (in the analysis worker when it is big: the main thread
+ * never parses or validates a big file) and plans the import of its good curve sets. A mapping that
+ * MappingSchema refuses throws v.ValiError; nothing to import throws UploadRejected.
+ */
+export async function prepareImport(viewer: Viewer, libraryId: number, uploadId: number, mapping: unknown) {
+  const lib = await getOwnLibraryForWrite(viewer, libraryId);
+  if (mapping !== undefined) v.parse(MappingSchema, mapping);
+  const [u] = await db()
+    .select({ id: uploads.id, sizeBytes: uploads.sizeBytes })
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
+  if (!u) throw data("No such upload in this library.", { status: 404 });
+  const a = await analyseForImport(u, { mappingJson: lib.mappingJson, mapping });
+  if (a.mappingRefused) throw new UploadRejected(`This mapping cannot be imported with: ${a.mappingRefused}.`);
+  if (!a.plan) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
+  return { lib, uploadId: u.id, plan: a.plan };
+}
+
+/**
  * Imports the good curve sets of an upload as a new revision, in one transaction: all of it or
- * none. Bad curve sets are skipped (counted). The mapping used is saved on the library.
+ * none. Bad curve sets are skipped (counted). The mapping used is saved on the library. The import's
+ * progress and end state are kept in `imports` (app/lib/libraries/import-progress.server.ts).
  */
 export async function importUpload(
   viewer: Viewer,
@@ -186,113 +216,8 @@ export async function importUpload(
   note = "",
   hooks: { beforeCommit?: () => Promise<void> } = {},
 ) {
-  const { lib, upload } = await getUpload(viewer, libraryId, uploadId);
-  const analysis = analyseCsv(decodeBytes(upload.content, encodingOf(mapping)).text, mapping);
-  // Re-check what is about to be written (finite SI values, ≥ 3 points, rising flow) — the same rules as
-  // the import core's CurveSetSchema, written out because this runs over every point of big files.
-  const good = analysis.result.curveSets.filter((c) => c.ok && writable(c));
-  if (good.length === 0) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
-  const skipped = analysis.result.curveSets.length - good.length;
-  return withTransaction(async (tx, conn) => {
-    // Serialise imports of one library (revision numbers) without blocking others.
-    await tx.select({ id: libraries.id }).from(libraries).where(eq(libraries.id, lib.id)).for("update");
-    const [{ n }] = await tx
-      .select({ n: sql<number>`COALESCE(MAX(${libraryRevisions.number}), 0)` })
-      .from(libraryRevisions)
-      .where(eq(libraryRevisions.libraryId, lib.id));
-    const models = new Map<string, typeof good>();
-    for (const c of good) models.set(c.model, [...(models.get(c.model) ?? []), c]);
-    const pointCount = good.reduce((s, c) => s + c.points.length, 0);
-    const [{ id: revisionId }] = await tx
-      .insert(libraryRevisions)
-      .values({
-        libraryId: lib.id,
-        number: Number(n) + 1,
-        uploadId: upload.id,
-        // A traced upload (issue 20) records where it came from and that it is approximate.
-        note: (upload.source ? `${upload.source}. ${TRACE_CAUTION}${note.trim() ? ` ${note.trim()}` : ""}` : note).slice(0, 500),
-        modelCount: models.size,
-        curveCount: good.length,
-        pointCount,
-        skippedCount: skipped,
-        createdBy: viewer.userId || null,
-      })
-      .$returningId();
-    // Models, curve sets and points with LOAD DATA LOCAL INFILE from memory on this transaction's
-    // connection (bulk-load.server.ts); ids are read back by revision (no reliance on consecutive
-    // auto-increment values, which Galera's interleaved mode does not give).
-    const modelRows = [...models].map(([name, sets]) => {
-      const diameters = sets.map((x) => x.impellerDiameter).filter((d): d is number => d != null);
-      const speeds = sets.map((x) => x.speed).filter((d): d is number => d != null);
-      return [
-        revisionId,
-        name.slice(0, 160),
-        (sets[0].type ?? "").slice(0, 80),
-        (sets[0].size ?? "").slice(0, 60),
-        speeds.length ? Math.max(...speeds) : null,
-        diameters.length ? Math.min(...diameters) : null,
-        diameters.length ? Math.max(...diameters) : null,
-        (sets[0].notes ?? "").slice(0, 1000),
-      ];
-    });
-    await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length, { keysCheckedByCaller: true });
-    const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
-    const setRows = good.map((c) => {
-      let lo = Infinity, hi = -Infinity;
-      for (const p of c.points) {
-        if (p.head < lo) lo = p.head;
-        if (p.head > hi) hi = p.head;
-      }
-      const modelId = modelIds.get(c.model.slice(0, 160));
-      if (modelId === undefined) throw new Error(`import: model ${c.model} was not written`);
-      return [modelId, revisionId, c.speed, c.impellerDiameter, c.points[0].flow, c.points[c.points.length - 1].flow, hi, lo, c.points.length];
-    });
-    await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], bulkText(setRows), setRows.length, { keysCheckedByCaller: true });
-    // Curve sets come back in insertion order (ascending id within this revision).
-    const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
-    if (setIds.length !== good.length) throw new Error(`import: expected ${good.length} curve sets, found ${setIds.length}`);
-    await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], () => pointsText(good, setIds), pointCount, { keysCheckedByCaller: true });
-    await tx
-      .update(libraries)
-      .set({ currentRevisionId: revisionId, mappingJson: JSON.stringify(analysis.mapping) })
-      .where(eq(libraries.id, lib.id));
-    await hooks.beforeCommit?.(); // fault injection for tests: a throw here must leave nothing behind
-    return { revisionId, number: Number(n) + 1, models: models.size, curves: good.length, points: pointCount, skipped };
-  });
-}
-
-/**
- * Curve points as LOAD DATA text, built straight from the curve sets (no per-point arrays), in
- * pieces of ~500 curves: the stream hands each piece to the server while the next is formatted.
- */
-function* pointsText(sets: { points: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number }[] }[], setIds: number[]): Generator<string> {
-  const opt = (x: number | undefined) => (x === undefined ? "\\N" : bulkField(x));
-  let s = "";
-  for (let i = 0; i < sets.length; i++) {
-    const id = String(setIds[i]);
-    const pts = sets[i].points;
-    for (let j = 0; j < pts.length; j++) {
-      const p = pts[j];
-      s += `${id}\t${j}\t${bulkField(p.flow)}\t${bulkField(p.head)}\t${opt(p.efficiency)}\t${opt(p.power)}\t${opt(p.npshr)}\n`;
-    }
-    if (i % 500 === 499) {
-      yield s;
-      s = "";
-    }
-  }
-  if (s) yield s;
-}
-
-const finiteOrAbsent = (x: number | undefined) => x === undefined || (Number.isFinite(x) && x >= 0);
-function writable(c: { model: string; points: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number }[] }): boolean {
-  if (!c.model.trim() || c.points.length < 3) return false;
-  let prev = -Infinity;
-  for (const p of c.points) {
-    if (!(Number.isFinite(p.flow) && p.flow >= 0 && p.flow > prev && Number.isFinite(p.head) && p.head >= 0)) return false;
-    if (!finiteOrAbsent(p.efficiency) || (p.efficiency ?? 0) > 1 || !finiteOrAbsent(p.power) || !finiteOrAbsent(p.npshr)) return false;
-    prev = p.flow;
-  }
-  return true;
+  const { lib, plan } = await prepareImport(viewer, libraryId, uploadId, mapping);
+  return runImport({ libraryId: lib.id, uploadId, userId: viewer.userId || null, plan, note }, hooks);
 }
 
 /** Multi-row INSERTs of curve points in batches on the transaction's connection. */

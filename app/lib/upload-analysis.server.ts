@@ -1,20 +1,35 @@
-// The mapping page's analysis of a stored upload, off the main thread and computed once: a worker
-// thread does the parse/validate (a 200 000-row file takes seconds: it must not stall every other
-// request), and the summary is kept per process by (file hash, saved mapping, mapping asked for),
-// so looking at the page again costs nothing. Each app process keeps its own small cache.
+// Analysis of stored uploads off the main thread: a worker thread decodes, parses and validates (a
+// 200 000-row file takes seconds: it must not stall every other request). The mapping page's summary
+// is kept per process by (file hash, saved mapping, mapping asked for), so looking at the page again
+// costs nothing; imports and the API's report get an import plan (app/lib/libraries/analysis-jobs.ts)
+// from the worker for files over OFF_THREAD_BYTES, and analyse small files in the calling thread.
+// The bytes are copied once and moved (transferred) to the worker; the plan's typed arrays are moved
+// back. Each app process keeps its own worker and small cache.
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
+import { eq } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { uploads } from "@db/schema";
 import type { UploadSummary } from "./upload-analysis";
+import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./libraries/analysis-jobs";
+
+/** Files up to this size are analysed for imports in the calling thread (tens of milliseconds at most). */
+export const OFF_THREAD_BYTES = 256 * 1024;
 
 export class AnalysisFailed extends Error {
   constructor(
     message: string,
-    public readonly issues: { message: string }[] = [],
+    public readonly issues: { message: string; path?: string[] }[] = [],
+    /** "ValiError" when the mapping itself was refused. */
+    public readonly errorName: string = "Error",
   ) {
     super(message);
     this.name = "AnalysisFailed";
+  }
+  get mappingRefused() {
+    return this.errorName === "ValiError";
   }
 }
 
@@ -23,7 +38,7 @@ const cache = new Map<string, Promise<UploadSummary>>();
 
 let worker: Worker | null = null;
 let seq = 0;
-const pending = new Map<number, { resolve: (s: UploadSummary) => void; reject: (e: Error) => void }>();
+const pending = new Map<number, { resolve: (s: AnalysisOutput) => void; reject: (e: Error) => void }>();
 
 /** The bundled worker next to the server build, else the TypeScript source through tsx's loader (development, tests). */
 function startWorker(): Worker {
@@ -38,12 +53,12 @@ function getWorker(): Worker {
   if (worker) return worker;
   const w = startWorker();
   w.unref(); // never keeps a process alive
-  w.on("message", (m: { id: number; ok: boolean; summary?: UploadSummary; message?: string; issues?: { message: string }[] }) => {
+  w.on("message", (m: { id: number; ok: boolean; out?: AnalysisOutput; name?: string; message?: string; issues?: { message: string; path?: string[] }[] }) => {
     const p = pending.get(m.id);
     if (!p) return;
     pending.delete(m.id);
-    if (m.ok) p.resolve(m.summary!);
-    else p.reject(new AnalysisFailed(m.message ?? "The file could not be analysed.", m.issues));
+    if (m.ok) p.resolve(m.out!);
+    else p.reject(new AnalysisFailed(m.message ?? "The file could not be analysed.", m.issues, m.name));
   });
   const fail = (err: unknown) => {
     worker = null;
@@ -58,20 +73,50 @@ function getWorker(): Worker {
   return w;
 }
 
-function inWorker(bytes: Uint8Array, mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
+type JobWithoutBytes = { [K in AnalysisJob["kind"]]: Omit<Extract<AnalysisJob, { kind: K }>, "bytes"> }[AnalysisJob["kind"]];
+
+/**
+ * Runs `job` in the worker on `source`: bytes (copied once into a buffer of their own, which is
+ * moved, not cloned), or a stored upload's id, whose bytes the worker reads from the database itself
+ * (so an 11 MB blob never passes through this thread). The caller has checked access to the upload.
+ */
+function inWorker(job: JobWithoutBytes, source: Uint8Array | { uploadId: number }): Promise<AnalysisOutput> {
   return new Promise((resolve, reject) => {
     const id = ++seq;
     pending.set(id, { resolve, reject });
-    getWorker().postMessage({ id, bytes, mappingJson, mapping });
+    if (source instanceof Uint8Array) {
+      const bytes = new Uint8Array(source);
+      getWorker().postMessage({ id, job: { ...job, bytes } }, [bytes.buffer]);
+    } else getWorker().postMessage({ id, job, uploadId: source.uploadId });
   });
 }
 
 /**
- * Summary of an upload's analysis. `upload.sha256` identifies the bytes; `bytes()` fetches them
- * only when the summary is not cached (the blob is never read for a repeat view). Rejects with
+ * The import plan (and, when asked, the API's report) of a stored upload: in the worker (which reads
+ * the bytes itself) for files over OFF_THREAD_BYTES, else here. Failures are AnalysisFailed either way.
+ * The caller has checked that the viewer may use the upload.
+ */
+export async function analyseForImport(
+  upload: { id: number; sizeBytes: number },
+  job: Omit<Extract<AnalysisJob, { kind: "import" }>, "kind" | "bytes">,
+): Promise<ImportAnalysis> {
+  if (upload.sizeBytes > OFF_THREAD_BYTES) return (await inWorker({ kind: "import", ...job }, { uploadId: upload.id })) as ImportAnalysis;
+  const [row] = await db().select({ content: uploads.content }).from(uploads).where(eq(uploads.id, upload.id));
+  try {
+    return runJob({ kind: "import", ...job, bytes: row?.content ?? new Uint8Array() }) as ImportAnalysis;
+  } catch (e) {
+    const err = e as Error & { issues?: { message: string; path?: { key: unknown }[] }[] };
+    throw new AnalysisFailed(err?.message ?? String(e), err?.issues?.map((i) => ({ message: i.message, path: (i.path ?? []).map((p) => String(p.key)) })), err?.name);
+  }
+}
+
+/**
+ * Summary of an upload's analysis. `upload.sha256` identifies the bytes; they are fetched only when
+ * the summary is not cached (the blob is never read for a repeat view): by `bytes()`, or with
+ * "stored" by the worker from the database (never through this thread). Rejects with
  * AnalysisFailed on a mapping that cannot work.
  */
-export function summariseUpload(upload: { id: number; sha256: string }, bytes: () => Promise<Uint8Array>, mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
+export function summariseUpload(upload: { id: number; sha256: string }, bytes: (() => Promise<Uint8Array>) | "stored", mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
   const k = `${upload.id}|${upload.sha256}|${mappingJson ?? ""}|${mapping === undefined ? "" : JSON.stringify(mapping)}`;
   const hit = cache.get(k);
   if (hit) {
@@ -79,7 +124,8 @@ export function summariseUpload(upload: { id: number; sha256: string }, bytes: (
     cache.set(k, hit); // most recently used last
     return hit;
   }
-  const p = bytes().then((b) => inWorker(b, mappingJson, mapping));
+  const job = { kind: "summary" as const, mappingJson, mapping };
+  const p = (bytes === "stored" ? inWorker(job, { uploadId: upload.id }) : bytes().then((b) => inWorker(job, b))).then((out) => (out as { summary: UploadSummary }).summary);
   p.catch(() => cache.delete(k));
   cache.set(k, p);
   while (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);

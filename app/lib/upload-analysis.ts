@@ -11,6 +11,14 @@ import {
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;
 export const FLAGGED_ROWS_SHOWN = 50;
+/** Points per preview curve at most (a curve with more is thinned evenly, both ends kept): the page stays small. */
+export const PREVIEW_POINTS = 200;
+
+function thin<T>(points: T[], max = PREVIEW_POINTS): T[] {
+  if (points.length <= max) return points;
+  const step = (points.length - 1) / (max - 1);
+  return Array.from({ length: max }, (_, i) => points[Math.round(i * step)]);
+}
 
 /** A row with an error, its cells and what is wrong with which cell (the fix grid). */
 export type FlaggedRow = { line: number; cells: string[]; problems: { index: number | null; reason: string }[] };
@@ -82,6 +90,11 @@ function flaggedRows(analysis: StoredAnalysis): { rows: FlaggedRow[]; total: num
   };
 }
 
+/**
+ * What the mapping page needs, and no more: it is copied from the worker and sent to the browser, so
+ * it stays small whatever the file's size (no per-curve list: counts are in `stats`; at most
+ * PREVIEW_CURVES curves of at most PREVIEW_POINTS points, PROBLEM_ROWS_SHOWN problems, FLAGGED_ROWS_SHOWN rows).
+ */
 export function summarise(analysis: StoredAnalysis) {
   const { result, sniff, mapping } = analysis;
   const problems = result.problems;
@@ -97,11 +110,10 @@ export function summarise(analysis: StoredAnalysis) {
     stats: result.stats,
     problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
     problemCount: problems.length,
-    curveSets: result.curveSets.map((c) => ({ key: c.key, name: curveName(c.model, c.speed, c.impellerDiameter), model: c.model, speed: c.speed, impellerDiameter: c.impellerDiameter, points: c.points.length, ok: c.ok })),
     preview: result.curveSets.slice(0, PREVIEW_CURVES).map((c) => ({
       id: c.key,
       label: `${curveName(c.model, c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,
-      points: c.points.map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
+      points: thin(c.points).map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
     })),
   };
 }

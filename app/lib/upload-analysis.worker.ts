@@ -1,16 +1,32 @@
-// Worker thread: decodes and analyses an upload off the main thread (see upload-analysis.server.ts).
-// Bundled to build/server/upload-analysis-worker.mjs by react-router.config.ts (buildEnd); run
-// through tsx from source in development and tests.
+// Worker thread: decodes and analyses uploads off the main thread (see upload-analysis.server.ts):
+// the mapping page's summary and the import plan (app/lib/libraries/analysis-jobs.ts). Bundled to
+// build/server/upload-analysis-worker.mjs by react-router.config.ts (buildEnd); run through tsx
+// from source in development and tests.
+// With an upload id instead of bytes, the worker reads the stored bytes itself (its own small pool),
+// so a big blob never passes through the main thread.
 import { parentPort } from "node:worker_threads";
-import { analyseStored, summarise } from "./upload-analysis";
+import { getPool } from "../../db/client.server";
+import { runJob, transferablesOf, type AnalysisJob } from "./libraries/analysis-jobs";
 
-type Job = { id: number; bytes: Uint8Array; mappingJson: string | null; mapping?: unknown };
+async function storedBytes(uploadId: number): Promise<Uint8Array> {
+  const rows = (await getPool().query("SELECT content FROM uploads WHERE id = ?", [uploadId])) as { content: Uint8Array }[];
+  if (!rows[0]) throw new Error("The upload is gone.");
+  return rows[0].content;
+}
 
-parentPort?.on("message", (job: Job) => {
+parentPort?.on("message", async ({ id, job, uploadId }: { id: number; job: AnalysisJob; uploadId?: number }) => {
   try {
-    parentPort!.postMessage({ id: job.id, ok: true, summary: summarise(analyseStored(job.bytes, { mappingJson: job.mappingJson }, job.mapping)) });
+    if (uploadId !== undefined) job = { ...job, bytes: await storedBytes(uploadId) };
+    const out = runJob(job);
+    parentPort!.postMessage({ id, ok: true, out }, transferablesOf(out));
   } catch (e) {
-    const err = e as Error & { issues?: { message: string }[] };
-    parentPort!.postMessage({ id: job.id, ok: false, name: err?.name ?? "Error", message: err?.message ?? String(e), issues: err?.issues?.map((i) => ({ message: i.message })) });
+    const err = e as Error & { issues?: { message: string; path?: { key: unknown }[] }[] };
+    parentPort!.postMessage({
+      id,
+      ok: false,
+      name: err?.name ?? "Error",
+      message: err?.message ?? String(e),
+      issues: err?.issues?.map((i) => ({ message: i.message, path: (i.path ?? []).map((p) => String(p.key)) })),
+    });
   }
 });

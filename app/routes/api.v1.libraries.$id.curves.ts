@@ -3,7 +3,7 @@ import type { Route } from "./+types/api.v1.libraries.$id.curves";
 import { requireApi } from "~/lib/auth/guards.server";
 import { libraryCurves } from "~/lib/libraries.server";
 import { forbidden, notFound, badRequest } from "~/lib/shared/problem.server";
-import { IdField } from "~/lib/shared/forms.server";
+import { IdField, readQuery } from "~/lib/shared/forms.server";
 
 // GET /api/v1/libraries/:id/curves[?revision=N] — curve sets with points, SI units
 // (flow m³/s, head m, efficiency 0..1, power W, NPSHr m, impeller diameter m, speed rpm).
@@ -11,7 +11,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await requireApi(request, "library.read");
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("Library id must be a number.");
-  const revParam = new URL(request.url).searchParams.get("revision");
+  const revParam = readQuery(request.url, "revision", 40);
   const rev = revParam ? v.safeParse(IdField, revParam) : null;
   if (rev && !rev.success) return badRequest("revision must be a number.");
   try {

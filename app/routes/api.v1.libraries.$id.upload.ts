@@ -1,12 +1,15 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.upload";
 import { requireApi } from "~/lib/auth/guards.server";
-import { analyseStored, getUpload, importUpload, storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { AnalysisFailed, analyseForImport } from "~/lib/upload-analysis.server";
+import { runImport } from "~/lib/libraries/import-run.server";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
-import { discardUpload } from "~/lib/uploads.server";
+import { discardUpload, getUploadMeta } from "~/lib/uploads.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
-import { curveNameOfKey } from "~/lib/import";
+
+class MappingRefused extends Error {}
 
 // POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1";
 // optional policy = "skip-curves" (default) | "drop-points", which overrides the mapping's policy).
@@ -37,31 +40,27 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (policy !== null && policy !== "skip-curves" && policy !== "drop-points")
       return badRequest("The 'policy' field must be skip-curves or drop-points.", { errors: [{ field: "policy", message: "skip-curves or drop-points" }] });
     const uploadId = await storeUpload(viewer, id.output, file);
-    const { upload, lib } = await getUpload(viewer, id.output, uploadId);
+    // Decoding, parsing and validating happen once, in the analysis worker for big files (never on
+    // the main thread): the report and, with import=1, the plan the import writes.
+    const { upload, lib } = await getUploadMeta(viewer, id.output, uploadId);
     let analysis;
     try {
-      analysis = analyseStored(upload.content, lib, mapping);
-      if (policy && analysis.mapping.policy !== policy) analysis = analyseStored(upload.content, lib, { ...analysis.mapping, policy });
+      analysis = await analyseForImport(upload, { mappingJson: lib.mappingJson, mapping, policy: policy ?? undefined, report: true });
     } catch (e) {
-      if (e instanceof v.ValiError) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).map((p: { key: unknown }) => String(p.key)).join(".")}`, message: i.message })) });
+      if (e instanceof AnalysisFailed && e.mappingRefused) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).join(".")}`, message: i.message })) });
       throw e;
     }
-    const report = {
-      uploadId,
-      encoding: analysis.decoded.encoding,
-      title: analysis.title,
-      mapping: analysis.mapping,
-      stats: analysis.result.stats,
-      problems: analysis.result.problems.map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : null })),
-    };
+    const report = { uploadId, ...analysis.report! };
     if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
     try {
-      const revision = await importUpload(viewer, id.output, uploadId, analysis.mapping, String(form.get("note") ?? "API import"));
-      return Response.json({ report, revision }, { status: 201 });
+      if (analysis.mappingRefused) throw new MappingRefused(analysis.mappingRefused);
+      if (!analysis.plan) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");
+      const { importId, ...revision } = await runImport({ libraryId: lib.id, uploadId, userId: viewer.userId || null, plan: analysis.plan, note: String(form.get("note") ?? "API import") });
+      return Response.json({ report, revision: { ...revision, importId } }, { status: 201 });
     } catch (e) {
       // A rejected import keeps nothing: the stored file goes with it.
       await discardUpload(id.output, uploadId);
-      if (e instanceof v.ValiError) return problem({ title: "Unprocessable Content", status: 422, detail: `Nothing imported: ${e.message}.`, report });
+      if (e instanceof MappingRefused) return problem({ title: "Unprocessable Content", status: 422, detail: `Nothing imported: ${e.message}.`, report });
       throw e;
     }
   } catch (e) {

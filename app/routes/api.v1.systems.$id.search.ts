@@ -3,7 +3,7 @@ import type { Route } from "./+types/api.v1.systems.$id.search";
 import { requireApi } from "~/lib/auth/guards.server";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
-import { IdField } from "~/lib/shared/forms.server";
+import { IdField, readQuery } from "~/lib/shared/forms.server";
 import { systemSearchView } from "~/lib/systems-api.server";
 
 const METHODS = ["direct", "trim", "speed"] as const;
@@ -14,7 +14,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await requireApi(request, "project.read");
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("System id must be a number.");
-  const methods = new URL(request.url).searchParams.getAll("method");
+  const { method: methods } = readQuery(request.url, v.object({ method: v.array(v.string()) }), { many: ["method"] });
   const bad = methods.find((m) => !(METHODS as readonly string[]).includes(m));
   if (bad !== undefined) return badRequest(`Unknown method "${bad.slice(0, 40)}": use direct, trim or speed.`);
   try {

@@ -1,8 +1,9 @@
+import * as v from "valibot";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { readId } from "~/lib/shared/forms.server";
+import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks.server";
 import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
@@ -30,7 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     photos: c.photos,
     versions: c.versions,
     latest: c.latest,
-    justRecorded: url.searchParams.get("recorded") === "1",
+    justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
     unitSystem: m.user.unitSystem as UnitSystem,
   };
 }

@@ -1,8 +1,9 @@
+import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import type { Route } from "./+types/field.selections.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { readId, readFormSafe } from "~/lib/shared/forms.server";
+import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import {
   checkHistory,
@@ -51,9 +52,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   fields.temperature = sys === "US" ? String(Math.round(f.system.input.temperatureC * 1.8 + 32)) : String(f.system.input.temperatureC);
   fields.gradeId = DEFAULT_GRADE;
   let amends: { id: number; version: number } | null = null;
-  const amendId = url.searchParams.get("amend");
-  if (amendId && /^\d{1,15}$/.test(amendId)) {
-    const c = await getFieldCheck(viewer, Number(amendId));
+  const { amend: amendId } = readQuery(url, v.object({ amend: QueryId }));
+  if (amendId) {
+    const c = await getFieldCheck(viewer, amendId);
     if (c.check.selectionId !== sel.id) throw data("That check belongs to another selection.", { status: 404 });
     if (!c.mayAmend) throw data("Only the workspace that recorded a check may amend it.", { status: 403 });
     fields = { ...c.fields, gradeId: c.check.grade, notes: c.check.notes };

@@ -7,14 +7,30 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, readForm, readId, readFormSafe } from "~/lib/shared/forms.server";
+import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
 import { Field, FormError, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
 import { UploadDrop } from "~/components/UploadDrop";
+import { ImportList } from "~/components/ImportList";
+import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
+
+/** The page's query string: filters, the model shown, and what an import just did (odd values fall back). */
+const LibraryQuery = v.object({
+  q: QueryText(),
+  type: QueryText(),
+  size: QueryText(),
+  speed: QueryText(40),
+  flow: QueryText(40),
+  head: QueryText(40),
+  sort: QueryText(10),
+  model: QueryId,
+  imported: QueryText(12),
+  import: QueryId,
+});
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "library.read");
@@ -25,9 +41,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const owner = lib.access === "owner";
   const writer = owner && can(m.role, "library.write");
   const url = new URL(request.url);
+  const query = readQuery(url, LibraryQuery);
   const sys = m.user.unitSystem as "SI" | "US";
-  const qp = (k: string) => url.searchParams.get(k)?.trim() ?? "";
-  const numIn = (k: string, q: "flow" | "head") => {
+  const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
+  const numIn = (k: "flow" | "head", q: "flow" | "head") => {
     const x = Number(qp(k).replace(",", "."));
     return Number.isFinite(x) && x > 0 ? toSI(q, UNIT_SYSTEMS[sys][q], x) : undefined;
   };
@@ -41,12 +58,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     head: numIn("head", "head"),
     sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",
   };
-  const [models, revisions, pending] = await Promise.all([
+  const [models, revisions, pending, imports] = await Promise.all([
     locked ? Promise.resolve([]) : listModels(viewer, id, filters),
     locked ? Promise.resolve([]) : listRevisions(id),
     writer ? pendingUploads(id) : Promise.resolve([]),
+    writer ? recentImports(id) : Promise.resolve([]),
   ]);
-  const modelId = Number(url.searchParams.get("model")) || models[0]?.id;
+  const modelId = query.model || models[0]?.id;
   const selected = !locked && modelId ? await getModel(viewer, modelId).catch(() => null) : null;
   return {
     lib: { id: lib.id, name: lib.name, description: lib.description, visibility: lib.visibility, owner: lib.ownerName, access: lib.access },
@@ -70,7 +88,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     curves: selected?.curves ?? [],
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
-    imported: url.searchParams.get("imported"),
+    imported: query.imported,
+    imports,
+    importId: query.import,
+    refreshHref: `${url.pathname}${url.search}#imports`,
   };
 }
 
@@ -141,6 +162,7 @@ export default function LibraryPage() {
               </p>
             </div>
             {d.imported ? <Notice>Revision {d.imported} imported.</Notice> : null}
+            {d.importId ? <Notice>Import {d.importId} started: its progress is shown under Imports below; you can leave this page and come back.</Notice> : null}
             <Form method="get" className="flex flex-wrap items-end gap-2 text-sm" aria-label="Filter models">
               <label>
                 <span className="label">Name</span>
@@ -279,6 +301,7 @@ export default function LibraryPage() {
           ) : null}
         </>
       )}
+      {d.writer ? <ImportList imports={d.imports} refreshHref={d.refreshHref} highlight={d.importId} /> : null}
       {d.writer ? (
         <section className="panel space-y-3">
           <h2 className="text-lg font-semibold">Import vendor curves</h2>

@@ -2,8 +2,9 @@ import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/auth/guards.server";
-import { importUpload, UploadRejected } from "~/lib/libraries.server";
-import { getUploadMeta, uploadBytes } from "~/lib/uploads.server";
+import { prepareImport, UploadRejected } from "~/lib/libraries.server";
+import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/libraries/import-run.server";
+import { getUploadMeta } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
 import type { UploadSummary } from "~/lib/upload-analysis";
 import {
@@ -12,7 +13,7 @@ import {
 } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/upload-fix.server";
 import { FixGrid } from "~/components/FixGrid";
-import { readId, readFormSafe } from "~/lib/shared/forms.server";
+import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
@@ -22,7 +23,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload
 
 /** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
 const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
-  summariseUpload(c.upload, () => uploadBytes(c.upload.id), c.lib.mappingJson, mapping).catch((e) => {
+  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping).catch((e) => {
     if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
     throw e;
   });
@@ -42,7 +43,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256, source: c.upload.source },
     unitSystem: c.m.user.unitSystem,
-    correctedFrom: Number(new URL(request.url).searchParams.get("from")) || null,
+    correctedFrom: readQuery(request.url, v.object({ from: QueryId })).from,
     ...(await analysis(c)),
   };
 }
@@ -118,7 +119,11 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!mapping) return { error };
   if (form.get("intent") === "import") {
     try {
-      const r = await importUpload(c.viewer, c.libraryId, c.uploadId, mapping, String(form.get("note") ?? ""));
+      const { lib, uploadId, plan } = await prepareImport(c.viewer, c.libraryId, c.uploadId, mapping);
+      const args = { libraryId: lib.id, uploadId, userId: c.viewer.userId || null, plan, note: String(form.get("note") ?? "") };
+      // A big import runs on in the background: the library page shows its progress (and finds it again later).
+      if (plan.points >= BACKGROUND_IMPORT_POINTS) throw redirect(`/libraries/${c.libraryId}?import=${await startImport(args)}#imports`);
+      const r = await runImport(args);
       throw redirect(`/libraries/${c.libraryId}?imported=${r.number}`);
     } catch (e) {
       if (e instanceof UploadRejected) return { error: e.message, ...(await analysis(c, mapping)) };
@@ -314,8 +319,8 @@ export default function UploadPreview() {
           {d.preview.length ? (
             <div className="mt-3">
               <CurvePreview unitSystem={l.unitSystem} title={`Preview of ${l.upload.filename}`} curves={d.preview} />
-              {d.curveSets.length > d.preview.length ? (
-                <p className="text-xs text-slate-500">Chart shows the first {d.preview.length} of {d.curveSets.length} curves.</p>
+              {d.stats.curveSets > d.preview.length ? (
+                <p className="text-xs text-slate-500">Chart shows the first {d.preview.length} of {d.stats.curveSets} curves.</p>
               ) : null}
             </div>
           ) : null}

@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { createProject, listProjects } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, readForm } from "~/lib/shared/forms.server";
+import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 
@@ -13,7 +13,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }
 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
-  const archived = new URL(request.url).searchParams.get("archived") === "1";
+  const { archived } = readQuery(request.url, v.object({ archived: QueryFlag }));
   return { list: await listProjects(viewerOf(m), { archived }), canWrite: can(m.role, "project.write"), archived, workspace: m.workspace.name };
 }
 

@@ -1,9 +1,10 @@
+import * as v from "valibot";
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/auth/guards.server";
 import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
+import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryText } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { toSI } from "~/engine";
@@ -14,22 +15,33 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
+/** Search filters from the query string (odd values fall back to "no filter"). */
+const SearchQuery = v.object({
+  type: QueryText(),
+  size: QueryText(),
+  speed: QueryText(40),
+  maxPower: QueryText(40),
+  method: v.fallback(v.array(v.string()), []),
+  beyond: QueryFlag,
+});
+
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
   const url = new URL(request.url);
   const sys = m.user.unitSystem as UnitSystem;
-  const q = (k: string) => url.searchParams.get(k)?.trim() || "";
+  const query = readQuery(url, SearchQuery, { many: ["method"] });
+  const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
   const maxPower = Number(q("maxPower").replace(",", "."));
   const speed = Number(q("speed"));
-  const methods = url.searchParams.getAll("method").filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
+  const methods = query.method.filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
   const filters = {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
     maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys === "US" ? "hp" : "kW", maxPower) : undefined,
     methods: methods.length ? methods : undefined,
-    allowBeyondCatalogue: url.searchParams.get("beyond") === "1",
+    allowBeyondCatalogue: query.beyond,
   };
   const viewer = viewerOf(m);
   const res = await searchForSystem(viewer, id, filters);

@@ -4,7 +4,7 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation, useRevalid
 import type { Route } from "./+types/workspace.billing";
 import { requireMember } from "~/lib/auth/guards.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, readForm } from "~/lib/shared/forms.server";
+import { invalid, readForm, readQuery } from "~/lib/shared/forms.server";
 import { listLibraries } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import {
@@ -39,7 +39,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   }
   // Library names and descriptions only (the listing never carries curves); a member without library.read sees none.
   const shared = (await listLibraries(viewerOf(m))).filter((l) => l.access !== "owner" && l.visibility === "shared");
-  const checkout = new URL(request.url).searchParams.get("checkout");
+  const checkout = readQuery(request.url, "checkout", 40) || null;
   return {
     workspace: { name: m.workspace.name },
     role: m.role,

@@ -83,7 +83,10 @@ function queryKeys(): string[] {
   const keys = new Set<string>(["next", "id", "page"]);
   for (const r of ROUTES) {
     const src = readFileSync(`app/${r.file}`, "utf8");
-    for (const m of src.matchAll(/(?:searchParams\.(?:get|getAll)|params\.get|\bqp?|readQuery\(\w+,)\s*\(?\s*"([\w.-]+)"/g)) keys.add(m[1]);
+    for (const m of src.matchAll(/(?:searchParams\.(?:get|getAll)|params\.get|\bqp?|readQuery\([\w.]+,)\s*\(?\s*"([\w.-]+)"/g)) keys.add(m[1]);
+    // keys of the valibot schemas read by readQuery(url, schema): `key: QueryText()`, `key: QueryFlag`, `key: QueryId`, `key: v.…`
+    for (const m of src.matchAll(/\b([\w]+):\s*(?:Query(?:Text|Flag|Id)\b|v\.(?:fallback|array)\()/g)) keys.add(m[1]);
+    for (const m of src.matchAll(/many:\s*\["([\w.-]+)"/g)) keys.add(m[1]);
   }
   return [...keys];
 }

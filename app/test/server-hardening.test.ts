@@ -131,6 +131,23 @@ describe.skipIf(!built)("body limits on the bytes read", () => {
     expect(r.type).toBe("application/problem+json");
   }, 30_000);
 
+  test("uploads take the upload class's limit from the shared table (app/lib/shared/body-limits.mjs): a declared 2 MB passes, 26 MB → 413", async () => {
+    // declares the length, sends 64 KB and waits: both answers come before the body is read
+    const declare = (bytes: number) =>
+      new Promise<number>((resolve, reject) => {
+        const headers = { "content-type": "multipart/form-data; boundary=x", authorization: "Bearer not-a-token", "content-length": String(bytes) };
+        const req = http.request({ host: "127.0.0.1", port, path: "/api/v1/libraries/1/upload", method: "POST", headers }, (res) => {
+          res.resume();
+          resolve(res.statusCode ?? 0);
+          req.destroy();
+        });
+        req.on("error", reject);
+        req.write(Buffer.alloc(64 * 1024, "a"));
+      });
+    expect(await declare(2 * 1024 * 1024)).toBe(401); // past both limit checks: the bad token answers
+    expect(await declare(26 * 1024 * 1024)).toBe(413);
+  }, 30_000);
+
   test("a small chunked POST still reaches the app (a wrong password is a 400, not a 413)", async () => {
     const body = "email=nobody%40example.test&password=wrong";
     const r = await new Promise<number>((resolve, reject) => {

@@ -27,12 +27,41 @@ export function formId(form: FormData, key: string): number {
   return id;
 }
 
-/** A query-string value, trimmed and capped (long or control-character values never reach a service). */
-export function readQuery(url: URL | string, key: string, max = 200): string {
+// eslint-disable-next-line no-control-regex -- control characters are exactly what is dropped
+const cleanQueryValue = (x: string, max: number) => x.replace(/[\u0000-\u001f\u007f]/g, "").trim().slice(0, max);
+
+/**
+ * The query string, read one way:
+ *  - `readQuery(url, key, max?)`: one value, trimmed and capped (long or control-character values
+ *    never reach a service);
+ *  - `readQuery(url, schema, { many })`: every key as its first value (cleaned and capped the same
+ *    way; keys listed in `many` as all their values), validated by a valibot object schema. A value
+ *    the schema refuses is a 400 — give a field `v.fallback(…)` (QueryText, QueryFlag, QueryId) to
+ *    keep a default instead, as pages with filters do.
+ */
+export function readQuery(url: URL | string, key: string, max?: number): string;
+export function readQuery<S extends v.GenericSchema>(url: URL | string, schema: S, opts?: { many?: string[]; max?: number }): v.InferOutput<S>;
+export function readQuery(url: URL | string, keyOrSchema: string | v.GenericSchema, opts: number | { many?: string[]; max?: number } = {}): unknown {
   const u = typeof url === "string" ? new URL(url) : url;
-  // eslint-disable-next-line no-control-regex -- control characters are exactly what is dropped
-  return (u.searchParams.get(key) ?? "").replace(/[\u0000-\u001f\u007f]/g, "").trim().slice(0, max);
+  if (typeof keyOrSchema === "string") return cleanQueryValue(u.searchParams.get(keyOrSchema) ?? "", typeof opts === "number" ? opts : 200);
+  const o = typeof opts === "number" ? {} : opts;
+  const max = o.max ?? 200;
+  const raw: Record<string, string | string[]> = {};
+  for (const k of new Set(u.searchParams.keys())) {
+    raw[k] = o.many?.includes(k) ? u.searchParams.getAll(k).slice(0, 20).map((x) => cleanQueryValue(x, max)) : cleanQueryValue(u.searchParams.get(k) ?? "", max);
+  }
+  for (const k of o.many ?? []) raw[k] ??= [];
+  const r = v.safeParse(keyOrSchema, raw);
+  if (!r.success) throw data(`The query string is not valid: ${r.issues.map((i) => i.message).join("; ")}.`, { status: 400 });
+  return r.output;
 }
+
+/** Query fields that fall back instead of refusing (pages keep working with odd links). */
+export const QueryText = (max = 200) => v.fallback(v.pipe(v.optional(v.string(), ""), v.transform((x) => x.slice(0, max))), "");
+/** "1" is true; anything else (or nothing) false. */
+export const QueryFlag = v.fallback(v.pipe(v.optional(v.string(), ""), v.transform((x) => x === "1")), false);
+/** A positive id, else null. */
+export const QueryId = v.fallback(v.pipe(v.optional(v.string(), ""), v.transform((x) => parseId(x)), v.transform((x) => (x ? x : null))), null);
 
 /** The request body as FormData (urlencoded or multipart); a malformed body is a 400, never a 500. */
 export async function readFormSafe(request: Request): Promise<FormData> {

@@ -1,0 +1,43 @@
+// The analysis jobs the server runs on stored uploads — in the analysis worker for big files
+// (app/lib/upload-analysis.server.ts decides), in the calling thread for small ones. Pure.
+import * as v from "valibot";
+import { MappingSchema, type Policy } from "../import";
+import { analyseStored, summarise, type UploadSummary } from "../upload-analysis";
+import { planBuffers, planImport, uploadReport, type ImportPlan, type UploadReport } from "./import-plan";
+
+export type AnalysisJob =
+  | { kind: "summary"; bytes: Uint8Array; mappingJson: string | null; mapping?: unknown }
+  | {
+      kind: "import";
+      bytes: Uint8Array;
+      mappingJson: string | null;
+      /** Given: applied as is. Absent: the library's saved mapping when it fits, else the suggestion. */
+      mapping?: unknown;
+      /** Overrides the mapping's policy (the API's `policy` field). */
+      policy?: Policy;
+      /** Also return the report the API answers with. */
+      report?: boolean;
+    };
+
+export type ImportAnalysis = {
+  /** Null when no curve set can be written. */
+  plan: ImportPlan | null;
+  /** Why the mapping used cannot be imported with (a suggestion that MappingSchema refuses), else null. */
+  mappingRefused: string | null;
+  report: UploadReport | null;
+};
+
+export type AnalysisOutput = { summary: UploadSummary } | ImportAnalysis;
+
+export function runJob(job: AnalysisJob): AnalysisOutput {
+  const lib = { mappingJson: job.mappingJson };
+  if (job.kind === "summary") return { summary: summarise(analyseStored(job.bytes, lib, job.mapping)) };
+  let a = analyseStored(job.bytes, lib, job.mapping);
+  if (job.policy && a.mapping.policy !== job.policy) a = analyseStored(job.bytes, lib, { ...a.mapping, policy: job.policy });
+  const check = v.safeParse(MappingSchema, a.mapping);
+  const mappingRefused = check.success ? null : check.issues.map((i) => i.message).join("; ");
+  return { plan: mappingRefused ? null : planImport(a), mappingRefused, report: job.report ? uploadReport(a) : null };
+}
+
+/** Buffers of an output that can be moved to the other thread instead of copied. */
+export const transferablesOf = (out: AnalysisOutput): ArrayBuffer[] => ("plan" in out && out.plan ? planBuffers(out.plan) : []);

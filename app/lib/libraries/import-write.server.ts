@@ -1,0 +1,141 @@
+// Writes an import plan (import-plan.ts) as a new revision of a library, in one transaction: all of
+// it or none. Models, curve sets and points go in with LOAD DATA LOCAL INFILE from memory on the
+// transaction's connection (bulk-load.server.ts); ids are read back by revision (no reliance on
+// consecutive auto-increment values, which Galera's interleaved mode does not give). Foreign-key
+// checks are off for those loads only (one round trip each way), because every key in them was
+// read back from rows this same transaction wrote.
+//
+// Progress goes to the `imports` row (import-progress.server.ts) from the pool, outside the
+// transaction, as the points are streamed: other requests see it while the import runs.
+import { asc, eq, sql } from "drizzle-orm";
+import { withTransaction } from "@db/client.server";
+import { curveSets, libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
+import { TRACE_CAUTION } from "../tracer/sniff";
+import { bulkLoad, bulkText, withoutKeyChecks } from "../bulk-load.server";
+import type { ImportPlan } from "./import-plan";
+import type { ProgressSink } from "./import-progress.server";
+
+export type ImportResult = { revisionId: number; number: number; models: number; curves: number; points: number; skipped: number };
+
+/** Points per piece of LOAD DATA text (and per progress step). */
+export const POINTS_PER_PIECE = 5000;
+
+export async function writeImport(
+  args: { libraryId: number; uploadId: number; userId: string | null; plan: ImportPlan; note: string },
+  hooks: { beforeCommit?: () => Promise<void>; progress?: ProgressSink } = {},
+): Promise<ImportResult> {
+  const { libraryId, uploadId, plan } = args;
+  const curves = plan.setModel.length;
+  return withTransaction(async (tx, conn) => {
+    // Serialise imports of one library (revision numbers) without blocking others.
+    await tx.select({ id: libraries.id }).from(libraries).where(eq(libraries.id, libraryId)).for("update");
+    const [{ n }] = await tx
+      .select({ n: sql<number>`COALESCE(MAX(${libraryRevisions.number}), 0)` })
+      .from(libraryRevisions)
+      .where(eq(libraryRevisions.libraryId, libraryId));
+    const number = Number(n) + 1;
+    // A traced upload (issue 20) records where it came from and that it is approximate.
+    const [upload] = await tx.select({ source: uploads.source }).from(uploads).where(eq(uploads.id, uploadId));
+    const note = args.note.trim();
+    const fullNote = upload?.source ? `${upload.source}. ${TRACE_CAUTION}${note ? ` ${note}` : ""}` : args.note;
+    const [{ id: revisionId }] = await tx
+      .insert(libraryRevisions)
+      .values({
+        libraryId,
+        number,
+        uploadId,
+        note: fullNote.slice(0, 500),
+        modelCount: plan.models.length,
+        curveCount: curves,
+        pointCount: plan.points,
+        skippedCount: plan.skipped,
+        createdBy: args.userId || null,
+      })
+      .$returningId();
+    await withoutKeyChecks(conn, async () => {
+      const modelRows = plan.models.map((m) => [
+        revisionId,
+        m.name.slice(0, 160),
+        m.type.slice(0, 80),
+        m.size.slice(0, 60),
+        m.ratedSpeed,
+        m.impellerMin,
+        m.impellerMax,
+        m.notes.slice(0, 1000),
+      ]);
+      await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length);
+      const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
+      for (const m of plan.models) if (!modelIds.has(m.name.slice(0, 160))) throw new Error(`import: model ${m.name} was not written`);
+      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], () => setsText(plan, modelIds, revisionId), curves);
+      // Curve sets come back in insertion order (ascending id within this revision).
+      const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
+      if (setIds.length !== curves) throw new Error(`import: expected ${curves} curve sets, found ${setIds.length}`);
+      await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], () => pointsText(plan, setIds, hooks.progress), plan.points);
+    });
+    await tx
+      .update(libraries)
+      .set({ currentRevisionId: revisionId, mappingJson: JSON.stringify(plan.mapping) })
+      .where(eq(libraries.id, libraryId));
+    await hooks.beforeCommit?.(); // fault injection for tests: a throw here must leave nothing behind
+    return { revisionId, number, models: plan.models.length, curves, points: plan.points, skipped: plan.skipped };
+  });
+}
+
+const SETS_PER_PIECE = 2000;
+const optField = (x: number) => (x === x ? String(x) : "\\N");
+
+/** Curve sets as LOAD DATA text, in pieces (the stream takes one per turn of the event loop). */
+function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
+  const v = plan.values;
+  const curves = plan.setModel.length;
+  let s = "";
+  for (let i = 0; i < curves; i++) {
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    let lo = Infinity, hi = -Infinity;
+    for (let k = a; k < b; k++) {
+      const h = v[k * 5 + 1];
+      if (h < lo) lo = h;
+      if (h > hi) hi = h;
+    }
+    const modelId = modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))!;
+    s += `${modelId}\t${revisionId}\t${optField(plan.setSpeed[i])}\t${optField(plan.setImpeller[i])}\t${v[a * 5]}\t${v[(b - 1) * 5]}\t${hi}\t${lo}\t${b - a}\n`;
+    if (i % SETS_PER_PIECE === SETS_PER_PIECE - 1) {
+      yield s;
+      s = "";
+    }
+  }
+  if (s) yield s;
+}
+
+/**
+ * Curve points as LOAD DATA text straight from the plan's typed arrays, in pieces of about
+ * POINTS_PER_PIECE points: the stream hands each piece to the server while the next is made (a few
+ * milliseconds each, so the event loop is never held), and each piece reports progress.
+ */
+export function* pointsText(plan: Pick<ImportPlan, "starts" | "values">, setIds: number[], progress?: ProgressSink): Generator<string> {
+  const v = plan.values;
+  const opt = optField;
+  let s = "";
+  let inPiece = 0;
+  let done = 0;
+  for (let i = 0; i < setIds.length; i++) {
+    const id = String(setIds[i]);
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    for (let k = a; k < b; k++) {
+      const o = k * 5;
+      s += `${id}\t${k - a}\t${v[o]}\t${v[o + 1]}\t${opt(v[o + 2])}\t${opt(v[o + 3])}\t${opt(v[o + 4])}\n`;
+    }
+    inPiece += b - a;
+    if (inPiece >= POINTS_PER_PIECE) {
+      done += inPiece;
+      inPiece = 0;
+      yield s;
+      s = "";
+      progress?.(done);
+    }
+  }
+  if (s) {
+    yield s;
+    progress?.(done + inPiece);
+  }
+}
