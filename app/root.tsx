@@ -26,6 +26,7 @@ import { databaseTrouble } from "~/lib/health.server";
 const BODY_LIMITS: [RegExp, number][] = [
   [/\/upload$/, 25 * 1024 * 1024],
   [/\/photos$/, 12 * 1024 * 1024],
+  [/^\/field\/selections\/\d+\/checks$/, 12 * 1024 * 1024],
   [/^\/api\/stripe\/webhook$/, 512 * 1024],
 ];
 const DEFAULT_BODY_LIMIT = 1024 * 1024;

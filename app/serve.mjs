@@ -33,6 +33,7 @@ export const CSP_NONCE_HEADER = "x-dutymark-csp-nonce";
 const BODY_LIMITS = [
   [/\/upload$/, 25 * 1024 * 1024],
   [/\/photos$/, 12 * 1024 * 1024],
+  [/^\/field\/selections\/\d+\/checks$/, 12 * 1024 * 1024],
   [/^\/api\/stripe\/webhook$/, 512 * 1024],
 ];
 const DEFAULT_BODY_LIMIT = 1024 * 1024;

@@ -2,7 +2,7 @@ import type { Route } from "./+types/field.checks.$id.photos.$photoId";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { readId } from "~/lib/forms.server";
-import { getPhoto } from "~/lib/fieldchecks.server";
+import { getPhoto } from "~/lib/fieldchecks/photos.server";
 
 // GET /field/checks/:id/photos/:photoId — one photo, with the content type found from its bytes at upload.
 export async function loader({ request, params }: Route.LoaderArgs) {

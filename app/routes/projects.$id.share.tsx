@@ -4,7 +4,7 @@ import type { Route } from "./+types/projects.$id.share";
 import { requireMember } from "~/lib/guards.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { IdField, invalid, readForm, readId } from "~/lib/forms.server";
-import { listShares, shareProject, unshareProject } from "~/lib/fieldchecks.server";
+import { listShares, shareProject, unshareProject } from "~/lib/projects/shares.server";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
 // commissioning contractor) by its exact name or short name; lists and removes shares.
