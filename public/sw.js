@@ -50,14 +50,25 @@ self.addEventListener("message", (event) => {
           // offline now: keep what we have
         }
       }
+      const fonts = new Set();
       for (const a of assets) {
         if (await cache.match(a)) continue;
         try {
           const res = await fetch(a);
-          if (res.ok) await cache.put(a, res);
+          if (!res.ok) continue;
+          await cache.put(a, res.clone());
+          // Fonts named by the style sheets (url(/assets/…)).
+          if (a.endsWith(".css")) for (const m of (await res.text()).matchAll(/url\((\/assets\/[^)\s?#]+)\)/g)) fonts.add(m[1]);
         } catch {}
       }
-      for (const client of await self.clients.matchAll()) client.postMessage({ type: "kept", pages: msg.pages ?? [] });
+      for (const f of fonts) {
+        if (await cache.match(f)) continue;
+        try {
+          const res = await fetch(f);
+          if (res.ok) await cache.put(f, res);
+        } catch {}
+      }
+      for (const client of await self.clients.matchAll()) client.postMessage({ type: "kept", key: msg.key, pages: msg.pages ?? [] });
     })(),
   );
 });

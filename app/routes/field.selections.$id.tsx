@@ -12,7 +12,7 @@ import { FieldCaution } from "~/components/fieldcheck";
 import { CheckForm } from "~/components/field/CheckForm";
 import { CheckHistoryList, SelectionSummary } from "~/components/field/SelectionSummary";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
-import { useOfflineCopies } from "~/components/field/offline";
+import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 
 // GET /field/selections/:id — the check form (phone first, works offline once opened) and the
 // selection's check history.
@@ -46,12 +46,13 @@ export default function FieldSelection() {
   const answer = useActionData<typeof action>();
   const selection = page.selection;
   const pending = usePendingChecks(selection.id);
-  useOfflineCopies([`/field/selections/${selection.id}`]);
+  const kept = useOfflineCopies([`/field/selections/${selection.id}`]);
   const fields: CheckFields = answer?.fields && Object.keys(answer.fields).length ? answer.fields : page.fields;
   return (
     <article className="mx-auto max-w-xl space-y-4">
       <SelectionSummary selection={selection} unitSystem={page.unitSystem} />
       <FieldCaution />
+      <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={page.unitSystem} />
       {page.mayWrite ? (
         <CheckForm selection={selection} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />

@@ -5,7 +5,7 @@ import { viewerOf } from "~/lib/viewer.server";
 import { fieldHome } from "~/lib/fieldchecks/records.server";
 import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
-import { useOfflineCopies } from "~/components/field/offline";
+import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import type { UnitSystem } from "~/components/units";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
@@ -25,7 +25,7 @@ export default function FieldHome() {
   const own = d.selections.filter((s) => s.own);
   const pending = usePendingChecks(null);
   // Copies for site: this list and every selection's form (with its curve data) open to this workspace.
-  useOfflineCopies(["/field", ...d.selections.map((s) => `/field/selections/${s.id}`)]);
+  const kept = useOfflineCopies(["/field", ...d.selections.map((s) => `/field/selections/${s.id}`)]);
   const list = (items: typeof d.selections) => (
     <ul className="mt-2 divide-y divide-slate-100">
       {items.map((s) => (
@@ -51,6 +51,7 @@ export default function FieldHome() {
         </p>
       </header>
       <FieldCaution />
+      <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={d.unitSystem} showSelection />
       <section className="panel">
         <h2 className="font-semibold">Shared with {d.workspace}</h2>

@@ -38,7 +38,8 @@ export function sendWaiting(): Promise<Sent[]> {
   running ??= (async () => {
     const sent: Sent[] = [];
     try {
-      for (const check of await allQueued()) {
+      const queued = (await allQueued()).sort((a, b) => a.createdAt.localeCompare(b.createdAt));
+      for (const check of queued) {
         if (check.status !== "waiting") continue;
         const done = await sendOne(check);
         if (done) sent.push(done);
