@@ -57,8 +57,8 @@ self.addEventListener("message", (event) => {
           const res = await fetch(a);
           if (!res.ok) continue;
           await cache.put(a, res.clone());
-          // Fonts named by the style sheets (url(/assets/…)).
-          if (a.endsWith(".css")) for (const m of (await res.text()).matchAll(/url\((\/assets\/[^)\s?#]+)\)/g)) fonts.add(m[1]);
+          // Fonts named by the style sheets (url(/assets/…)): the Latin subsets, as the pages are in English.
+          if (a.endsWith(".css")) for (const m of (await res.text()).matchAll(/url\((\/assets\/[^)\s?#]+)\)/g)) if (/-latin-(ext-)?\d+-normal/.test(m[1])) fonts.add(m[1]);
         } catch {}
       }
       for (const f of fonts) {
