@@ -17,6 +17,7 @@ import {
   PRESSURE_UNITS,
   TEMPERATURE_UNITS,
   type CheckFields,
+  type FrozenSelection,
 } from "~/lib/fieldchecks";
 import { GradeTable } from "../fieldcheck";
 import { ErrorSummary } from "./ErrorSummary";
@@ -33,9 +34,6 @@ const LABELS: Record<string, string> = {
   power: "Input power", volts: "Volts", amps: "Amps", powerFactor: "Power factor", motorEfficiency: "Motor efficiency",
   temperature: "Fluid temperature", gradeId: "Tolerance grade", notes: "Notes", photos: "Photos",
 };
-
-/** The frozen selection as the loader sends it (the same document the server evaluates against). */
-type FrozenSelection = Parameters<typeof evaluateCheck>[0];
 
 export type FormSelection = { id: number; title: string; fingerprint: string; frozen: FrozenSelection };
 

@@ -1,10 +1,30 @@
 // The history of a selection's field checks as CSV (SI units in every header), through the one
 // CSV writer. Pure: takes what `checkHistory` returns.
 import { toCsv } from "../csv";
-import type { CheckHistory } from "./records.server";
+import type { Readings, Verdict } from "./form";
+import type { CheckResult } from "./result";
+
+/** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
+export type CheckHistoryForCsv = {
+  selection: { id: number; title: string; projectName: string };
+  checks: {
+    id: number;
+    chainId: number;
+    version: number;
+    superseded: boolean;
+    createdAt: string;
+    byName: string;
+    byWorkspace: string;
+    verdict: Verdict;
+    grade: string;
+    notes: string;
+    result: CheckResult;
+    readings: Readings;
+  }[];
+};
 
 /** One row per check (oldest first) after two comment lines naming the selection and the cautions. */
-export function historyCsv(h: CheckHistory): string {
+export function historyCsv(h: CheckHistoryForCsv): string {
   const lines: unknown[][] = [
     ["# Dutymark field checks", `selection ${h.selection.id}`, h.selection.title, h.selection.projectName],
     ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],

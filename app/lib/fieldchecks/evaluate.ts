@@ -17,12 +17,23 @@ import {
   type PumpCurve,
   type ToleranceGrade,
 } from "~/engine";
-import { fluidOf, toPumpPoints } from "../hydraulics";
-import type { FrozenSelection } from "../projects.server";
+import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import type { CheckResult, Pt } from "./result";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
+
+/**
+ * The parts of a frozen selection (projects' `FrozenSelection`, which fits this shape) that a check
+ * reads: spelled out here so this module imports no server module and runs on the phone.
+ */
+export type FrozenSelection = {
+  system: { input: SystemInput };
+  systemCurve: ReturnType<typeof evaluateSystem> | null;
+  pump: { label?: string; speed: number | null; impellerDiameter: number | null; points: Parameters<typeof toPumpPoints>[0] };
+  adjustment: Adjustment;
+  result: ReturnType<typeof evaluateCandidate>;
+};
 
 /** The tolerance grade of that id (ISO 9906 grades, `TOLERANCE_GRADES` in the engine), or null. */
 export function gradeById(id: string): ToleranceGrade | null {
