@@ -75,9 +75,11 @@ self.addEventListener("message", (event) => {
 
 self.addEventListener("fetch", (event) => {
   const req = event.request;
-  if (req.method !== "GET") return;
   const url = new URL(req.url);
   if (!sameOrigin(url)) return;
+  // Signing out drops the copies: the next person on this phone must not see them.
+  if (req.method === "POST" && /^\/signout(\.data)?$/.test(url.pathname)) event.waitUntil(caches.delete(CACHE));
+  if (req.method !== "GET") return;
   if (STATIC.test(url.pathname)) {
     event.respondWith(
       (async () => {

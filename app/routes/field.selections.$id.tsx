@@ -28,7 +28,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const selectionId = readId(params.id);
   const url = new URL(request.url);
   const page = await checkPage(viewerOf(member), selectionId, member.user.unitSystem as UnitSystem, readQuery(url, "amend", 20));
-  return { ...page, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.unitSystem as UnitSystem };
+  const owner = `${member.user.id}/${member.workspace.id}`;
+  return { ...page, owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.unitSystem as UnitSystem };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -45,7 +46,7 @@ export default function FieldSelection() {
   const page = useLoaderData<typeof loader>();
   const answer = useActionData<typeof action>();
   const selection = page.selection;
-  const pending = usePendingChecks(selection.id);
+  const pending = usePendingChecks(page.owner, selection.id);
   const kept = useOfflineCopies([`/field/selections/${selection.id}`]);
   const fields: CheckFields = answer?.fields && Object.keys(answer.fields).length ? answer.fields : page.fields;
   return (
@@ -55,7 +56,7 @@ export default function FieldSelection() {
       <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={page.unitSystem} />
       {page.mayWrite ? (
-        <CheckForm selection={selection} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
+        <CheckForm selection={selection} owner={page.owner} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
       ) : (
         <p className="panel text-sm">Your role can read field checks but not record them.</p>
       )}

@@ -16,14 +16,14 @@ export const links: Route.LinksFunction = () => [{ rel: "manifest", href: "/fiel
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const h = await fieldHome(viewerOf(m));
-  return { ...h, workspace: m.workspace.name, role: m.role, unitSystem: m.user.unitSystem as UnitSystem };
+  return { ...h, workspace: m.workspace.name, role: m.role, unitSystem: m.user.unitSystem as UnitSystem, owner: `${m.user.id}/${m.workspace.id}` };
 }
 
 export default function FieldHome() {
   const d = useLoaderData<typeof loader>();
   const shared = d.selections.filter((s) => !s.own);
   const own = d.selections.filter((s) => s.own);
-  const pending = usePendingChecks(null);
+  const pending = usePendingChecks(d.owner, null);
   // Copies for site: this list and every selection's form (with its curve data) open to this workspace.
   const kept = useOfflineCopies(["/field", ...d.selections.map((s) => `/field/selections/${s.id}`)]);
   const list = (items: typeof d.selections) => (

@@ -37,14 +37,24 @@ const LABELS: Record<string, string> = {
 
 export type FormSelection = { id: number; title: string; fingerprint: string; frozen: FrozenSelection };
 
+type Props = {
+  selection: FormSelection;
+  /** "userId/workspaceId" of the signed-in contractor: the queue sends only their checks. */
+  owner: string;
+  fields: CheckFields;
+  serverErrors: Errors;
+  amends: { id: number; version: number } | null;
+  onQueued: () => void;
+};
+
 /** A device-made id: a random UUID (secure contexts), else 128 random bits in hex. */
 function deviceId(): string {
   if (typeof crypto.randomUUID === "function") return crypto.randomUUID();
   return Array.from(crypto.getRandomValues(new Uint8Array(16)), (b) => b.toString(16).padStart(2, "0")).join("");
 }
 
-export function CheckForm(props: { selection: FormSelection; fields: CheckFields; serverErrors: Errors; amends: { id: number; version: number } | null; onQueued: () => void }) {
-  const { selection, fields, serverErrors, amends, onQueued } = props;
+export function CheckForm(props: Props) {
+  const { selection, owner, fields, serverErrors, amends, onQueued } = props;
   const navigation = useNavigation();
   const navigate = useNavigate();
   const [clientErrors, setClientErrors] = useState<Errors>(undefined);
@@ -90,6 +100,7 @@ export function CheckForm(props: { selection: FormSelection; fields: CheckFields
     setBusy(true);
     const check: QueuedCheck = {
       clientId: deviceId(),
+      owner,
       selectionId: selection.id,
       selectionTitle: selection.title,
       basedOn: selection.fingerprint,
@@ -109,7 +120,7 @@ export function CheckForm(props: { selection: FormSelection; fields: CheckFields
     }
     form.reset();
     onQueued();
-    const sent = navigator.onLine ? await sendWaiting() : [];
+    const sent = navigator.onLine ? await sendWaiting(owner) : [];
     setBusy(false);
     const mine = sent.find((s) => s.clientId === check.clientId);
     if (mine) {

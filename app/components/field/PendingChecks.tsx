@@ -6,18 +6,19 @@ import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
 import { fmtFlow, fmtHead, type UnitSystem } from "../units";
 
-export function usePendingChecks(selectionId: number | null) {
+/** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
+export function usePendingChecks(owner: string, selectionId: number | null) {
   const [queued, setQueued] = useState<QueuedCheck[]>([]);
   const [sent, setSent] = useState<Sent[]>([]);
   const refresh = useCallback(async () => {
     const all = await allQueued().catch(() => [] as QueuedCheck[]);
-    setQueued(all.filter((c) => selectionId === null || c.selectionId === selectionId).sort((a, b) => a.createdAt.localeCompare(b.createdAt)));
-  }, [selectionId]);
+    setQueued(all.filter((c) => c.owner === owner && (selectionId === null || c.selectionId === selectionId)).sort((a, b) => a.createdAt.localeCompare(b.createdAt)));
+  }, [owner, selectionId]);
   const send = useCallback(async () => {
-    const done = await sendWaiting().catch(() => [] as Sent[]);
+    const done = await sendWaiting(owner).catch(() => [] as Sent[]);
     if (done.length) setSent((s) => [...s, ...done]);
     await refresh();
-  }, [refresh]);
+  }, [owner, refresh]);
   useEffect(() => {
     void refresh().then(() => (navigator.onLine ? send() : undefined));
     const online = () => void send();

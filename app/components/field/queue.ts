@@ -8,6 +8,8 @@ export type QueuedPhoto = { name: string; type: string; blob: Blob };
 export type QueuedCheck = {
   /** Made on the device (crypto.randomUUID); the server records each id once. */
   clientId: string;
+  /** The signed-in user and workspace that entered it ("userId/workspaceId"): only they send it. */
+  owner: string;
   selectionId: number;
   selectionTitle: string;
   /** The selection's fingerprint when the form was opened (a change is a conflict on sync). */

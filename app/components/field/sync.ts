@@ -33,14 +33,14 @@ async function sendOne(check: QueuedCheck, opts: { ignoreConflict?: boolean } = 
 
 let running: Promise<Sent[]> | null = null;
 
-/** Sends every waiting check (one run at a time); answers what the server recorded. */
-export function sendWaiting(): Promise<Sent[]> {
+/** Sends every waiting check of `owner` (one run at a time); answers what the server recorded. */
+export function sendWaiting(owner: string): Promise<Sent[]> {
   running ??= (async () => {
     const sent: Sent[] = [];
     try {
       const queued = (await allQueued()).sort((a, b) => a.createdAt.localeCompare(b.createdAt));
       for (const check of queued) {
-        if (check.status !== "waiting") continue;
+        if (check.status !== "waiting" || check.owner !== owner) continue;
         const done = await sendOne(check);
         if (done) sent.push(done);
       }
