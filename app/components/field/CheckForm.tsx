@@ -2,7 +2,7 @@
 // and redirects). With JavaScript every check is first kept on the phone (IndexedDB, photos too),
 // worked out there with the same engine, then sent with its device id; offline it waits to send.
 import { useState, type FormEvent } from "react";
-import { Form, useNavigate, useNavigation } from "react-router";
+import { Form, useNavigation } from "react-router";
 import { TOLERANCE_GRADES, unitLabel } from "~/engine";
 import {
   DEFAULT_GRADE,
@@ -56,7 +56,6 @@ function deviceId(): string {
 export function CheckForm(props: Props) {
   const { selection, owner, fields, serverErrors, amends, onQueued } = props;
   const navigation = useNavigation();
-  const navigate = useNavigate();
   const [clientErrors, setClientErrors] = useState<Errors>(undefined);
   const [saved, setSaved] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -124,7 +123,9 @@ export function CheckForm(props: Props) {
     setBusy(false);
     const mine = sent.find((s) => s.clientId === check.clientId);
     if (mine) {
-      navigate(`/field/checks/${mine.id}?recorded=1`);
+      // A full load, not a client navigation: the address and the page change together (a client
+      // navigation pushes the address before a slow phone has drawn the new page).
+      window.location.assign(`/field/checks/${mine.id}?recorded=1`);
       return;
     }
     onQueued();
