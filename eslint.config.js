@@ -54,6 +54,12 @@ export default tseslint.config(
     rules: { "no-restricted-imports": ["error", { patterns: [NO_FIXTURES, NO_SERVER_MODULES, NO_DB] }] },
   },
   {
+    // The field-check modules the phone runs offline (public face index.ts): no server module, no database.
+    files: ["app/lib/fieldchecks/*.ts"],
+    ignores: [...TEST_AND_SCRIPTS, "app/lib/fieldchecks/*.server.ts"],
+    rules: { "no-restricted-imports": ["error", { patterns: [NO_FIXTURES, NO_SERVER_MODULES, NO_DB] }] },
+  },
+  {
     // The engine is pure: nothing of the app, the database, React or Node (it runs in the browser too).
     files: ["app/engine/**/*.ts"],
     ignores: ["app/engine/**/*.test.ts", "app/engine/test/**"],

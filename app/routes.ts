@@ -41,6 +41,7 @@ export default [
   route("field/selections/:id", "routes/field.selections.$id.tsx"),
   route("field/selections/:id/photos", "routes/field.selections.$id.tsx", { id: "routes/field.selections.$id.post" }),
   route("field/selections/:id/export.csv", "routes/field.selections.$id.export-csv.ts"),
+  route("field/selections/:id/checks", "routes/field.selections.$id.checks.ts"),
   route("field/checks/:id", "routes/field.checks.$id.tsx"),
   route("field/checks/:id/photos/:photoId", "routes/field.checks.$id.photos.$photoId.ts"),
   route("projects/:id/share", "routes/projects.$id.share.tsx"),

@@ -493,9 +493,11 @@ export const fieldChecks = mysqlTable(
     verdict: mysqlEnum("verdict", VERDICTS).notNull(),
     grade: varchar("grade", { length: 20 }).notNull(),
     notes: text("notes").notNull(),
+    /** Id made on the device that recorded the check (offline sync): the server accepts it once. Null for checks from before. */
+    clientId: varchar("client_id", { length: 64 }),
     createdAt: createdAt(),
   },
-  (t) => [index("field_checks_selection_idx").on(t.selectionId), index("field_checks_chain_idx").on(t.chainId)],
+  (t) => [index("field_checks_selection_idx").on(t.selectionId), index("field_checks_chain_idx").on(t.chainId), uniqueIndex("field_checks_client_uq").on(t.clientId)],
 );
 
 export const fieldCheckPhotos = mysqlTable(

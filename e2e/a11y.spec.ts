@@ -52,3 +52,58 @@ for (const group of PAGES) {
     expect(found).toEqual({});
   });
 }
+
+// Issue 19: the field pages as a contractor holds them, 390×844, including a refused submit (the
+// summary at the top takes the focus) and the number fields' keypad hints and thumb-sized targets.
+test.describe("field pages on a phone", () => {
+  test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
+
+  test("accessibility: field pages at 390×844 have no serious or critical axe violations; a refused check moves focus to the summary", async ({ page }) => {
+    test.setTimeout(150_000);
+    await signIn(page, "contractor@lowmoor.example");
+    const found: Record<string, unknown> = {};
+    const check = async (label: string) => {
+      const v = await axeViolations(page);
+      if (v.length) found[label] = v;
+    };
+    await page.goto("/field");
+    await page.waitForLoadState("networkidle");
+    await check("/field");
+    const selectionPath = await firstLink(page, /^\/field\/selections\/\d+$/);
+    await page.goto(selectionPath);
+    await page.waitForLoadState("networkidle");
+    await check(selectionPath);
+
+    // Every number brings up the decimal keypad with an Enter key that moves on; targets are thumb-sized (WCAG 2.5.5: 44 px).
+    const form = page.locator("form[method=post]").filter({ has: page.getByRole("button", { name: "Record the check" }) });
+    const numbers = form.locator("input[type=text]");
+    expect(await numbers.count()).toBeGreaterThan(15);
+    const attrs = await numbers.evaluateAll((els) => els.map((el) => ({ name: el.getAttribute("name"), inputmode: el.getAttribute("inputmode"), enterkeyhint: el.getAttribute("enterkeyhint"), h: el.getBoundingClientRect().height })));
+    for (const a of attrs) {
+      expect(a.inputmode, `${a.name}`).toBe("decimal");
+      expect(["next", "done"], `${a.name}`).toContain(a.enterkeyhint);
+      expect(a.h, `${a.name}`).toBeGreaterThanOrEqual(44);
+    }
+    await expect(page.locator("#fc-sPressure-unit")).toHaveText("kPa");
+    const buttonBox = await form.getByRole("button", { name: "Record the check" }).boundingBox();
+    expect(buttonBox?.height ?? 0).toBeGreaterThanOrEqual(44);
+
+    // A refused check: the summary at the top takes the focus, each field says what is wrong beside it.
+    await page.getByLabel("Suction reading").fill("");
+    await page.getByLabel("Discharge reading").fill("lots");
+    await form.getByRole("button", { name: "Record the check" }).click();
+    const summary = page.getByRole("alert").filter({ hasText: "need another look" });
+    await expect(summary).toBeFocused();
+    await expect(summary.getByRole("link", { name: /Discharge reading/ })).toBeVisible();
+    await expect(page.locator("#dPressure-err")).toHaveText(/must be a number/);
+    await expect(page.getByLabel("Discharge reading")).toHaveAttribute("aria-invalid", "true");
+    await check(`${selectionPath} (refused)`);
+
+    await page.goto("/field");
+    const checkPath = await firstLink(page, /^\/field\/checks\/\d+$/);
+    await page.goto(checkPath);
+    await page.waitForLoadState("networkidle");
+    await check(checkPath);
+    expect(found).toEqual({});
+  });
+});

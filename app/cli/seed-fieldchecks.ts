@@ -3,8 +3,8 @@
 import { and, eq } from "drizzle-orm";
 import { db } from "../../db/client.server";
 import { fieldChecks, projects, projectShares, selections, users, workspaces } from "../../db/schema";
-import { evaluateCheck, fieldSelection, recordFieldCheck } from "../lib/fieldchecks.server";
-import { blankFields, type Readings } from "../lib/fieldcheck-form";
+import { fieldSelection, recordFieldCheck } from "../lib/fieldchecks/records.server";
+import { blankFields, evaluateCheck, type Readings } from "../lib/fieldchecks";
 import { fluidOf } from "../lib/hydraulics";
 import { G0 } from "../engine";
 import type { Viewer } from "../lib/libraries.server";

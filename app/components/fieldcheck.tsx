@@ -4,8 +4,7 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
-import { VERDICT_TEXT, type Verdict } from "~/lib/fieldcheck-form";
-import type { CheckResult } from "~/lib/fieldcheck-result";
+import { VERDICT_TEXT, type CheckResult, type Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitSystem } from "./units";
 
 export function FieldCaution() {

@@ -2,7 +2,7 @@ import type { Route } from "./+types/field.checks.$id.photos.$photoId";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
-import { getPhoto } from "~/lib/fieldchecks.server";
+import { getPhoto } from "~/lib/fieldchecks/photos.server";
 
 // GET /field/checks/:id/photos/:photoId — one photo, with the content type found from its bytes at upload.
 export async function loader({ request, params }: Route.LoaderArgs) {

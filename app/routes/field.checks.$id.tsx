@@ -5,11 +5,10 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
-import { getFieldCheck } from "~/lib/fieldchecks.server";
-import { inputPowerW, speedRpm, type Readings } from "~/lib/fieldcheck-form";
+import { getFieldCheck } from "~/lib/fieldchecks/records.server";
+import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
-import { crossOf, crossSentences } from "~/lib/fieldcheck-cross";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.

@@ -2,7 +2,8 @@ import type { Route } from "./+types/field.selections.$id.export-csv";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
-import { checkHistory, historyCsv } from "~/lib/fieldchecks.server";
+import { checkHistory } from "~/lib/fieldchecks/records.server";
+import { historyCsv } from "~/lib/fieldchecks";
 
 // GET /field/selections/:id/export.csv — every check of the selection (all versions), SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {

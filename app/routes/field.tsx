@@ -2,28 +2,35 @@ import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { fieldHome } from "~/lib/fieldchecks.server";
+import { fieldHome } from "~/lib/fieldchecks/records.server";
 import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
+import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
+import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
+import type { UnitSystem } from "~/components/units";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
 
-export const meta: Route.MetaFunction = () => [{ title: "Field checks · Dutymark" }];
+export const meta: Route.MetaFunction = () => [{ title: "Field checks · Dutymark" }, { name: "theme-color", content: "#0d4a45" }];
+export const links: Route.LinksFunction = () => [{ rel: "manifest", href: "/field.webmanifest" }, { rel: "apple-touch-icon", href: "/icons/field-192.png" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const h = await fieldHome(viewerOf(m));
-  return { ...h, workspace: m.workspace.name, role: m.role };
+  return { ...h, workspace: m.workspace.name, role: m.role, unitSystem: m.user.unitSystem as UnitSystem, owner: `${m.user.id}/${m.workspace.id}` };
 }
 
 export default function FieldHome() {
   const d = useLoaderData<typeof loader>();
   const shared = d.selections.filter((s) => !s.own);
   const own = d.selections.filter((s) => s.own);
+  const pending = usePendingChecks(d.owner, null);
+  // Copies for site: this list and every selection's form (with its curve data) open to this workspace.
+  const kept = useOfflineCopies(["/field", ...d.selections.map((s) => `/field/selections/${s.id}`)]);
   const list = (items: typeof d.selections) => (
     <ul className="mt-2 divide-y divide-slate-100">
       {items.map((s) => (
         <li key={s.id} className="py-2">
-          <a href={`/field/selections/${s.id}`} className="font-semibold">
+          <a href={`/field/selections/${s.id}`} className="inline-block py-2 font-semibold">
             {s.title}
           </a>
           <span className="block text-sm text-slate-600">
@@ -44,6 +51,8 @@ export default function FieldHome() {
         </p>
       </header>
       <FieldCaution />
+      <OfflineReady kept={kept} />
+      <PendingChecks pending={pending} unitSystem={d.unitSystem} showSelection />
       <section className="panel">
         <h2 className="font-semibold">Shared with {d.workspace}</h2>
         {shared.length ? list(shared) : <p className="mt-2 text-sm text-slate-600">No project has been shared with this workspace yet. Ask the engineer to share it with “{d.workspace}”.</p>}
@@ -62,7 +71,7 @@ export default function FieldHome() {
           <ul className="mt-2 divide-y divide-slate-100 text-sm">
             {d.checks.map((c) => (
               <li key={c.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-                <a href={`/field/checks/${c.id}`}>
+                <a href={`/field/checks/${c.id}`} className="inline-block py-2">
                   {c.selection} · check {c.id} v{c.version}
                 </a>
                 <span className="text-slate-600">

@@ -14,6 +14,7 @@ import * as fieldFormRoute from "~/routes/field.selections.$id";
 import * as fieldCheckRoute from "~/routes/field.checks.$id";
 import * as fieldPhotoRoute from "~/routes/field.checks.$id.photos.$photoId";
 import * as fieldCsvRoute from "~/routes/field.selections.$id.export-csv";
+import * as fieldSyncRoute from "~/routes/field.selections.$id.checks";
 import * as shareRoute from "~/routes/projects.$id.share";
 import * as fieldHomeRoute from "~/routes/field";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
@@ -100,6 +101,18 @@ export const SWEEP: Probe[] = [
     name: "POST /field/selections/:id/photos amends= (B's check)",
     fn: () => fieldFormRoute.action as never,
     opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/photos`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01", amends: String(c.bField.checkId) }) }),
+    unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
+  },
+  {
+    name: "POST /field/selections/:id/checks (the phone's queue: a check on B's selection)",
+    fn: () => fieldSyncRoute.action as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/checks`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01", clientId: "sweep-probe-0001" }) }),
+    unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
+  },
+  {
+    name: "POST /field/selections/:id/checks amends= (B's check)",
+    fn: () => fieldSyncRoute.action as never,
+    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/checks`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01", amends: String(c.bField.checkId), clientId: "sweep-probe-0002" }) }),
     unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
   },
   {

@@ -16,8 +16,9 @@ import { invite } from "~/lib/workspaces";
 import { analyseStored, createLibrary, curvesOfRevisions, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
-import { recordFieldCheck, shareProject } from "~/lib/fieldchecks.server";
-import { parseCheckFields } from "~/lib/fieldcheck-form";
+import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { shareProject } from "~/lib/projects/shares.server";
+import { parseCheckFields } from "~/lib/fieldchecks";
 import { fieldsForHead } from "./fieldcheck-fixture";
 import { storePicture } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
@@ -61,6 +62,7 @@ const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
   "field/selections/:id": (c) => ({ id: String(c.selection) }),
   "field/selections/:id/photos": (c) => ({ id: String(c.selection) }),
   "field/selections/:id/export.csv": (c) => ({ id: String(c.selection) }),
+  "field/selections/:id/checks": (c) => ({ id: String(c.selection) }),
   "field/checks/:id": (c) => ({ id: String(c.check) }),
   "field/checks/:id/photos/:photoId": (c) => ({ id: String(c.check), photoId: String(c.photo) }),
   "invite/:token": (c) => ({ token: c.invite }),

@@ -7,6 +7,7 @@
 export const BODY_LIMITS = Object.freeze([
   Object.freeze({ name: "upload", pattern: /\/upload$/, bytes: 25 * 1024 * 1024 }), // CSV uploads (20 MB file + multipart framing)
   Object.freeze({ name: "photos", pattern: /\/photos$/, bytes: 12 * 1024 * 1024 }), // field-check photos
+  Object.freeze({ name: "field-check-sync", pattern: /^\/field\/selections\/\d+\/checks$/, bytes: 12 * 1024 * 1024 }), // a check queued on a phone, with its photos
   Object.freeze({ name: "stripe-webhook", pattern: /^\/api\/stripe\/webhook$/, bytes: 512 * 1024 }),
 ]);
 

@@ -2,10 +2,10 @@
 // chart's operating points on the system curve. Check values: hand-worked on straight-line curves.
 import { describe, expect, test } from "vitest";
 import { fluidAt, solveOperatingPoint, createPumpCurve } from "~/engine";
-import { evaluateCheck } from "./fieldchecks.server";
-import { parseCheckFields } from "./fieldcheck-form";
-import { crossOf, crossSentences } from "./fieldcheck-cross";
-import { evaluateSystem } from "./hydraulics";
+import { evaluateCheck } from "./evaluate";
+import { parseCheckFields } from "./form";
+import { crossOf, crossSentences } from "./cross";
+import { evaluateSystem } from "../hydraulics";
 import { crossingOf, interpolateAt } from "~/components/chart/scales";
 import { fieldsForHead, frozenFixture, linearPoints } from "~/test/fieldcheck-fixture";
 

@@ -1,7 +1,7 @@
 // The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
-import { toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { fromSI, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 
 export type GaugeRef = "gauge" | "absolute";
 
@@ -70,11 +70,16 @@ export type CheckFields = Record<string, string>;
 
 export const labelOf = (q: Quantity, unit: string) => unitLabel(q, unit);
 
-/** Defaults for a blank form in the user's unit system; pipe diameters from the selection when known (m). */
-export function blankFields(sys: "SI" | "US", pipe: { suction?: number | null; discharge?: number | null } = {}): CheckFields {
+/**
+ * Defaults for a blank form in the user's unit system; pipe diameters (m) and the fluid
+ * temperature (°C) from the selection when known, converted by the engine's unit table.
+ */
+export function blankFields(sys: "SI" | "US", known: { suction?: number | null; discharge?: number | null; temperatureC?: number | null } = {}): CheckFields {
   const u = UNIT_SYSTEMS[sys];
-  const dUnit = u.diameter === "in" ? "in" : "mm";
-  const d = (m?: number | null) => (m && m > 0 ? String(Number((dUnit === "in" ? m / 0.0254 : m * 1000).toFixed(dUnit === "in" ? 3 : 1))) : "");
+  const diameterUnit = u.diameter === "in" ? "in" : "mm";
+  const temperatureUnit = sys === "US" ? "F" : "C";
+  const diameter = (metres?: number | null) => (metres && metres > 0 ? String(Number(fromSI("diameter", diameterUnit, metres).toFixed(diameterUnit === "in" ? 3 : 1))) : "");
+  const temperatureC = known.temperatureC ?? 20;
   return {
     pressureUnit: sys === "US" ? "psi" : "kPa",
     sRef: "gauge",
@@ -86,9 +91,9 @@ export function blankFields(sys: "SI" | "US", pipe: { suction?: number | null; d
     elevationUnit: sys === "US" ? "ft" : "m",
     sElevation: "0",
     dElevation: "0",
-    diameterUnit: dUnit,
-    sDiameter: d(pipe.suction),
-    dDiameter: d(pipe.discharge),
+    diameterUnit,
+    sDiameter: diameter(known.suction),
+    dDiameter: diameter(known.discharge),
     flowUnit: sys === "US" ? "gpm" : "m3/h",
     flow: "",
     flowAccuracy: "",
@@ -105,8 +110,8 @@ export function blankFields(sys: "SI" | "US", pipe: { suction?: number | null; d
     powerFactor: "",
     phases: "3",
     motorEfficiency: "",
-    temperatureUnit: sys === "US" ? "F" : "C",
-    temperature: sys === "US" ? "68" : "20",
+    temperatureUnit,
+    temperature: String(Number(fromSI("temperature", temperatureUnit, temperatureC).toFixed(1))),
     notes: "",
   };
 }

@@ -2,7 +2,7 @@
 // arm around the curve at the delivered point; meeting either arm meets the grade. Pure: built from a
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
-import type { CheckResult } from "./fieldcheck-result";
+import type { CheckResult } from "./result";
 
 export type CrossArm = {
   arm: "head" | "flow";

@@ -5,8 +5,10 @@ import { and, desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, outbox, workspaces } from "@db/schema";
 import { fluidAt, gaugeTdh, TOLERANCE_GRADES, type ToleranceGrade } from "~/engine";
-import { evaluateCheck, fieldSelection, getFieldCheck, checkHistory, historyCsv, readPhotos, recordFieldCheck, shareProject, sniffImage, unshareProject, listShares, PhotoRejected } from "./fieldchecks.server";
-import { inputPowerW, parseCheckFields, speedRpm, type Readings } from "./fieldcheck-form";
+import { fieldSelection, getFieldCheck, checkHistory, recordFieldCheck } from "./records.server";
+import { readPhotos, sniffImage, PhotoRejected } from "./photos.server";
+import { evaluateCheck, historyCsv, inputPowerW, parseCheckFields, speedRpm, type Readings } from "./index";
+import { listShares, shareProject, unshareProject } from "../projects/shares.server";
 import { call, makeMember, type TestMember } from "~/test/harness";
 import { fieldsForHead, frozenFixture, linearPoints, storeSelection } from "~/test/fieldcheck-fixture";
 import * as formRoute from "~/routes/field.selections.$id";
@@ -14,7 +16,7 @@ import * as recordRoute from "~/routes/field.checks.$id";
 import * as photoRoute from "~/routes/field.checks.$id.photos.$photoId";
 import * as csvRoute from "~/routes/field.selections.$id.export-csv";
 import * as shareRoute from "~/routes/projects.$id.share";
-import type { Viewer } from "./libraries.server";
+import type { Viewer } from "../libraries.server";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 

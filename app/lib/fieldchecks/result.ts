@@ -1,7 +1,7 @@
 // What a recorded field check stores as its result (computed once at submission by
-// fieldchecks.server.ts): a plain type shared by the server and the components that show it.
+// evaluate.ts, recorded by records.server.ts): a plain type shared by the server and the components that show it.
 import type { FieldCheckResult } from "~/engine";
-import type { Verdict } from "./fieldcheck-form";
+import type { Verdict } from "./form";
 
 export type Pt = { flow: number; y: number };
 

@@ -1,0 +1,105 @@
+// Checks kept on this phone: "waiting to send" (sent as soon as there is a network), a conflict
+// (the selection changed since the phone opened it: shown, the contractor decides) or refused by
+// the server (shown with its reason). Also what this page sent, with links to the recorded checks.
+import { useCallback, useEffect, useState } from "react";
+import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
+import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
+import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+
+/** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
+export function usePendingChecks(owner: string, selectionId: number | null) {
+  const [queued, setQueued] = useState<QueuedCheck[]>([]);
+  const [sent, setSent] = useState<Sent[]>([]);
+  const refresh = useCallback(async () => {
+    const all = await allQueued().catch(() => [] as QueuedCheck[]);
+    setQueued(all.filter((c) => c.owner === owner && (selectionId === null || c.selectionId === selectionId)).sort((a, b) => a.createdAt.localeCompare(b.createdAt)));
+  }, [owner, selectionId]);
+  const send = useCallback(async () => {
+    const done = await sendWaiting(owner).catch(() => [] as Sent[]);
+    if (done.length) setSent((s) => [...s, ...done]);
+    await refresh();
+  }, [owner, refresh]);
+  useEffect(() => {
+    void refresh().then(() => (navigator.onLine ? send() : undefined));
+    const online = () => void send();
+    window.addEventListener("online", online);
+    return () => window.removeEventListener("online", online);
+  }, [refresh, send]);
+  return { queued, sent, refresh, send, setSent };
+}
+
+export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitSystem; showSelection?: boolean }) {
+  const { queued, sent, refresh, send, setSent } = props.pending;
+  const sys = props.unitSystem;
+  if (!queued.length && !sent.length) return null;
+  const waiting = queued.filter((c) => c.status === "waiting").length;
+  return (
+    <section className="panel space-y-2" aria-labelledby="pending-title" data-testid="pending-checks">
+      <h2 id="pending-title" className="font-semibold">
+        On this phone
+      </h2>
+      <p role="status" className="text-sm">
+        {waiting ? `${waiting} ${waiting === 1 ? "check" : "checks"} waiting to send.` : "Nothing waiting to send."}
+      </p>
+      {queued.length ? (
+        <ul className="divide-y divide-slate-100 text-sm">
+          {queued.map((c) => (
+            <li key={c.clientId} className="space-y-1 py-2" data-status={c.status}>
+              <p>
+                <span className="font-semibold">{c.status === "waiting" ? "Waiting to send" : c.status === "conflict" ? "Conflict: not recorded" : "Refused by the server"}</span>
+                {" · "}
+                {props.showSelection ? `${c.selectionTitle} · ` : ""}
+                {c.createdAt.slice(0, 16).replace("T", " ")}
+              </p>
+              <p className="text-slate-700">
+                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {c.local.verdictText}. The server works it out again when it
+                is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
+              </p>
+              {c.message ? <p className="font-semibold text-fail">{c.message}</p> : null}
+              {c.status === "conflict" ? (
+                <button
+                  type="button"
+                  className="btn-quiet min-h-12"
+                  onClick={async () => {
+                    const done = await sendDespiteConflict(c);
+                    if (done) setSent((s) => [...s, done]);
+                    await refresh();
+                  }}
+                >
+                  Record against the selection as it is now
+                </button>
+              ) : null}
+              {c.status !== "waiting" ? (
+                <button
+                  type="button"
+                  className="btn-quiet ml-2 min-h-12"
+                  onClick={async () => {
+                    if (window.confirm("Delete these readings from this phone? They were not recorded.")) await deleteQueued(c.clientId);
+                    await refresh();
+                  }}
+                >
+                  Delete from this phone
+                </button>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {waiting ? (
+        <button type="button" className="btn-quiet min-h-12" onClick={() => void send()}>
+          Send now
+        </button>
+      ) : null}
+      {sent.length ? (
+        <ul className="text-sm" aria-label="Sent from this phone">
+          {sent.map((s) => (
+            <li key={s.clientId}>
+              Sent: <a href={`/field/checks/${s.id}`}>check {s.id}</a>
+              {s.duplicate ? " (it had arrived already)" : ""}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,98 @@
+// The head of a selection's check page (what was selected) and its list of recorded checks.
+import { VerdictBadge } from "../fieldcheck";
+import type { Verdict } from "~/lib/fieldchecks";
+import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+
+export type SummarySelection = {
+  id: number;
+  title: string;
+  projectName: string;
+  systemName: string;
+  ownerWorkspace: string;
+  own: boolean;
+  pump: string;
+  designSpeed: number | null;
+  duty: { flow: number; head: number } | null | undefined;
+  arrangement: string;
+  dutyPumps: number;
+};
+
+export function SelectionSummary({ selection, unitSystem }: { selection: SummarySelection; unitSystem: UnitSystem }) {
+  return (
+    <header>
+      <p className="text-sm">
+        <a href="/field" className="inline-block py-2">
+          Field checks
+        </a>{" "}
+        ›
+      </p>
+      <h1 className="text-xl font-bold text-brand-900">{selection.title}</h1>
+      <p className="text-sm text-slate-700">
+        {selection.projectName} · {selection.systemName}
+        {selection.own ? "" : ` · shared by ${selection.ownerWorkspace}`}
+      </p>
+      <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+        <dt className="text-slate-600">Pump</dt>
+        <dd>{selection.pump}</dd>
+        <dt className="text-slate-600">Design duty</dt>
+        <dd>{selection.duty ? `${fmtFlow(unitSystem, selection.duty.flow)} at ${fmtHead(unitSystem, selection.duty.head)}` : "not set"}</dd>
+        <dt className="text-slate-600">Design speed</dt>
+        <dd>{selection.designSpeed ? `${Math.round(selection.designSpeed)} rpm` : "not stated"}</dd>
+        {selection.arrangement !== "single" ? (
+          <>
+            <dt className="text-slate-600">Arrangement</dt>
+            <dd>
+              {selection.dutyPumps} in {selection.arrangement}: take readings across one pump
+            </dd>
+          </>
+        ) : null}
+      </dl>
+    </header>
+  );
+}
+
+export type HistoryEntry = {
+  id: number;
+  version: number;
+  superseded: boolean;
+  verdict: Verdict;
+  grade: string;
+  createdAt: string;
+  flow: number | null;
+  head: number;
+  flowSource: string;
+};
+
+export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitSystem }) {
+  return (
+    <section className="panel">
+      <div className="flex items-center justify-between gap-2">
+        <h2 className="font-semibold">History</h2>
+        {history.length ? (
+          <a className="btn-quiet min-h-12" href={`/field/selections/${selectionId}/export.csv`}>
+            CSV
+          </a>
+        ) : null}
+      </div>
+      {history.length === 0 ? (
+        <p className="mt-2 text-sm text-slate-600">No checks recorded on this selection yet.</p>
+      ) : (
+        <ul className="mt-2 divide-y divide-slate-100 text-sm">
+          {history.map((check) => (
+            <li key={check.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+              <a href={`/field/checks/${check.id}`} className="inline-block py-2">
+                Check {check.id} v{check.version} · {check.createdAt.slice(0, 16).replace("T", " ")}
+                {check.superseded ? " (amended later)" : ""}
+              </a>
+              <span className="text-slate-600">
+                {check.flow != null ? fmtFlow(unitSystem, check.flow) : "—"} at {fmtHead(unitSystem, check.head)}
+                {check.flowSource === "measured" ? "" : " (flow inferred)"}
+              </span>
+              <VerdictBadge verdict={check.verdict} grade={check.grade} />
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

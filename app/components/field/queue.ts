@@ -1,0 +1,55 @@
+// The phone's send queue for field checks, in IndexedDB: every check entered with JavaScript is
+// kept here first (photos as Blobs), shown as "waiting to send", and removed only once the server
+// has answered with the recorded check. Browser only.
+import type { CheckFields } from "~/lib/fieldchecks";
+
+export type QueuedPhoto = { name: string; type: string; blob: Blob };
+
+export type QueuedCheck = {
+  /** Made on the device (crypto.randomUUID); the server records each id once. */
+  clientId: string;
+  /** The signed-in user and workspace that entered it ("userId/workspaceId"): only they send it. */
+  owner: string;
+  selectionId: number;
+  selectionTitle: string;
+  /** The selection's fingerprint when the form was opened (a change is a conflict on sync). */
+  basedOn: string;
+  fields: CheckFields;
+  photos: QueuedPhoto[];
+  createdAt: string;
+  /** What the phone worked out with the engine, shown until the server's own result is in. */
+  local: { verdict: string; verdictText: string; flow: number | null; head: number };
+  status: "waiting" | "conflict" | "refused";
+  message?: string;
+};
+
+const DB_NAME = "dutymark-field";
+const STORE = "checks";
+
+function open(): Promise<IDBDatabase> {
+  return new Promise((resolve, reject) => {
+    const req = indexedDB.open(DB_NAME, 1);
+    req.onupgradeneeded = () => req.result.createObjectStore(STORE, { keyPath: "clientId" });
+    req.onsuccess = () => resolve(req.result);
+    req.onerror = () => reject(req.error);
+  });
+}
+
+async function run<T>(mode: IDBTransactionMode, work: (store: IDBObjectStore) => IDBRequest<T>): Promise<T> {
+  const db = await open();
+  try {
+    return await new Promise<T>((resolve, reject) => {
+      const tx = db.transaction(STORE, mode);
+      const req = work(tx.objectStore(STORE));
+      tx.oncomplete = () => resolve(req.result);
+      tx.onerror = () => reject(tx.error);
+      tx.onabort = () => reject(tx.error);
+    });
+  } finally {
+    db.close();
+  }
+}
+
+export const putQueued = (check: QueuedCheck) => run("readwrite", (s) => s.put(check)).then(() => undefined);
+export const deleteQueued = (clientId: string) => run("readwrite", (s) => s.delete(clientId)).then(() => undefined);
+export const allQueued = () => run<QueuedCheck[]>("readonly", (s) => s.getAll() as IDBRequest<QueuedCheck[]>);

@@ -1,0 +1,50 @@
+// The history of a selection's field checks as CSV (SI units in every header), through the one
+// CSV writer. Pure: takes what `checkHistory` returns.
+import { toCsv } from "../shared/csv";
+import type { Readings, Verdict } from "./form";
+import type { CheckResult } from "./result";
+
+/** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
+export type CheckHistoryForCsv = {
+  selection: { id: number; title: string; projectName: string };
+  checks: {
+    id: number;
+    chainId: number;
+    version: number;
+    superseded: boolean;
+    createdAt: string;
+    byName: string;
+    byWorkspace: string;
+    verdict: Verdict;
+    grade: string;
+    notes: string;
+    result: CheckResult;
+    readings: Readings;
+  }[];
+};
+
+/** One row per check (oldest first) after two comment lines naming the selection and the cautions. */
+export function historyCsv(h: CheckHistoryForCsv): string {
+  const lines: unknown[][] = [
+    ["# Dutymark field checks", `selection ${h.selection.id}`, h.selection.title, h.selection.projectName],
+    ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],
+    [
+      "check_id", "chain_id", "version", "superseded", "recorded_at", "recorded_by", "workspace", "verdict", "grade", "flow_source",
+      "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
+      "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
+      "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
+      "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "notes",
+    ],
+  ];
+  for (const c of [...h.checks].reverse()) {
+    const r = c.result;
+    lines.push([
+        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
+        r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
+        r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
+        c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
+        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, c.notes,
+    ]);
+  }
+  return toCsv(lines, { precision: 8 });
+}

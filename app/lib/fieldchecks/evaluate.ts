@@ -1,0 +1,224 @@
+// The field check itself, pure: readings against a frozen selection → the delivered duty point,
+// deviations, a verdict against a labelled tolerance grade and plain hints. No database, no Node
+// API: the server runs it when a check is recorded, the phone runs it offline (same numbers).
+import {
+  createPumpCurve,
+  EngineInputError,
+  efficiencyAt,
+  fieldCheck,
+  G0,
+  sampleCurve,
+  scaleBySpeed,
+  scaleByTrim,
+  STANDARD_ATMOSPHERE,
+  TOLERANCE_GRADES,
+  withinGrade,
+  type FieldCheckResult,
+  type PumpCurve,
+  type ToleranceGrade,
+} from "~/engine";
+import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../hydraulics";
+import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
+import type { CheckResult, Pt } from "./result";
+
+export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
+
+/**
+ * The parts of a frozen selection (projects' `FrozenSelection`, which fits this shape) that a check
+ * reads: spelled out here so this module imports no server module and runs on the phone.
+ */
+export type FrozenSelection = {
+  system: { input: SystemInput };
+  systemCurve: ReturnType<typeof evaluateSystem> | null;
+  pump: { label?: string; speed: number | null; impellerDiameter: number | null; points: Parameters<typeof toPumpPoints>[0] };
+  adjustment: Adjustment;
+  result: ReturnType<typeof evaluateCandidate>;
+};
+
+/** The tolerance grade of that id (ISO 9906 grades, `TOLERANCE_GRADES` in the engine), or null. */
+export function gradeById(id: string): ToleranceGrade | null {
+  return TOLERANCE_GRADES.find((g) => g.id === id) ?? null;
+}
+
+/** One pump's curve as selected (trim applied; speed ratio returned separately). */
+function selectedCurve(f: FrozenSelection): { base: PumpCurve; trimmed: PumpCurve; designRatio: number } {
+  const base = createPumpCurve({ points: toPumpPoints(f.pump.points), speed: f.pump.speed ?? undefined, impellerDiameter: f.pump.impellerDiameter ?? undefined, riseTolerance: 1 });
+  const ratio = f.result?.ratio ?? 1;
+  if (f.adjustment.method === "trim" && ratio !== 1) return { base, trimmed: scaleByTrim(base, ratio).curve, designRatio: 1 };
+  return { base, trimmed: base, designRatio: f.adjustment.method === "speed" ? ratio : 1 };
+}
+
+function sample(c: PumpCurve, rho: number) {
+  const s = sampleCurve(c, 41, rho);
+  return {
+    head: s.flows.map((q, i) => ({ flow: q, y: s.head[i] })),
+    eff: s.flows.map((q, i) => ({ flow: q, y: s.efficiency[i] })).filter((p): p is Pt => p.y != null),
+  };
+}
+
+/**
+ * Verdict against one grade. Flow meter: pass if the point is within the grade of the curve at the
+ * measured speed; marginal if not, but some point within the reading uncertainty (head ± gauge
+ * accuracy, flow ± meter accuracy) is; fail otherwise. No flow meter: unknown.
+ */
+export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number): Verdict {
+  if (e.flowSource !== "measured" || e.flow === null) return "unknown";
+  const q = e.flow;
+  const h = e.tdh;
+  if (h > 0 && withinGrade(curve, q, h, grade)) return "pass";
+  if (headUncertainty > 0 || flowAccuracy > 0) {
+    const steps = [-1, -0.5, 0, 0.5, 1];
+    for (const a of steps)
+      for (const b of steps) {
+        const qq = q * (1 + a * flowAccuracy);
+        const hh = h + b * headUncertainty;
+        if (qq > 0 && hh > 0 && withinGrade(curve, qq, hh, grade)) return "marginal";
+      }
+  }
+  return "fail";
+}
+
+/** Usual causes, worded as things to check — never a diagnosis. */
+function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult }): string[] {
+  const hints: string[] = [];
+  const { dutyFlow, dutyHead, curveHead } = r.deviation;
+  const offDuty = dutyFlow !== null && Math.abs(dutyFlow) > 0.05;
+  if (offDuty && dutyFlow! < 0 && (dutyHead ?? 0) > 0)
+    hints.push("Less flow and more head than the design duty usually means the system is more resistant than designed: look for throttled or closed valves, a clogged strainer or filter, a fouled coil or a stuck check valve.");
+  if (offDuty && dutyFlow! > 0 && (dutyHead ?? 0) < 0)
+    hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
+  if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
+    hints.push(`The measured speed differs from the selection's speed (${Math.round(r.speed.measured)} rpm against ${Math.round(r.speed.design)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < 0)
+    hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > 0)
+    hints.push("The readings sit above the pump's curve: check the gauges' zero and calibration, the gauge elevations, the pipe diameters entered, and the flow meter's range and installation.");
+  if (r.engine.verdict === "off-curve")
+    hints.push("The measured head is not on the curve at all: check the readings first (gauge reference, units, elevations), then the speed and whether the valve is shut.");
+  if (hints.length) hints.unshift("Usual causes to check — these are possibilities, not a diagnosis:");
+  return hints;
+}
+
+/** The delivered duty point and verdict from readings against a frozen selection (SI in, SI out). */
+export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: string): CheckResult {
+  const grade = gradeById(gradeId);
+  if (!grade) throw new EngineInputError("grade", `unknown tolerance grade "${gradeId}"`);
+  const fluid = fluidOf({ ...f.system.input, temperatureC: readings.temperatureC });
+  const rho = fluid.density;
+  const warnings: string[] = [];
+  const { trimmed, designRatio } = selectedCurve(f);
+  const rated = f.pump.speed ?? null;
+  const design = rated !== null ? rated * designRatio : null;
+  const measured = speedRpm(readings.speed);
+  const designCurve = designRatio !== 1 ? scaleBySpeed(trimmed, designRatio).curve : trimmed;
+  let curve = designCurve;
+  let rescaled = false;
+  if (measured !== null && rated !== null) {
+    const s = scaleBySpeed(trimmed, measured / rated);
+    curve = s.curve;
+    rescaled = true;
+    warnings.push(...s.warnings.map((w) => w.message));
+  } else if (measured !== null) warnings.push("The pump curve has no rated speed, so it could not be rescaled to the measured speed: compared at the selected curve as stored.");
+  else warnings.push("No speed entered: compared with the curve at the selection's design speed.");
+  if (readings.speed.mode === "vfd") warnings.push("Speed from the drive frequency: base speed × frequency / base frequency (the motor's slip is taken as at the nameplate).");
+
+  // Both gauges on the gauge reference; an absolute reading is taken relative to the standard atmosphere.
+  const asGauge = (g: Readings["suction"]) => (g.reference === "absolute" ? g.pressure - STANDARD_ATMOSPHERE : g.pressure);
+  const mixed = readings.suction.reference !== readings.discharge.reference;
+  if (mixed) warnings.push("One gauge is absolute and the other is gauge: the absolute reading was taken relative to the standard atmosphere (101.325 kPa); local barometric pressure differs.");
+  const ps = asGauge(readings.suction);
+  const pd = asGauge(readings.discharge);
+
+  const n = f.adjustment.arrangement === "single" ? 1 : f.adjustment.dutyPumps;
+  const dutyAll = f.system.input.duty ?? f.result?.operating ?? null;
+  const duty = dutyAll
+    ? { flow: f.adjustment.arrangement === "parallel" ? dutyAll.flow / n : dutyAll.flow, head: f.adjustment.arrangement === "series" ? dutyAll.head / n : dutyAll.head }
+    : null;
+  if (n > 1) warnings.push(`The selection runs ${n} pumps in ${f.adjustment.arrangement}: readings are judged against one pump's curve and one pump's share of the duty.`);
+
+  const input = inputPowerW(readings.power);
+  const motorEff = readings.power.mode === "none" ? null : readings.power.motorEfficiency;
+  const shaft = input !== null && motorEff !== null ? input * motorEff : null;
+
+  const engine = fieldCheck({
+    curve,
+    fluid,
+    suction: { pressure: ps, elevation: readings.suction.elevation, pipeDiameter: readings.suction.diameter, accuracy: readings.suction.accuracy },
+    discharge: { pressure: pd, elevation: readings.discharge.elevation, pipeDiameter: readings.discharge.diameter, accuracy: readings.discharge.accuracy },
+    measuredFlow: readings.flow ?? undefined,
+    measuredPower: shaft ?? undefined,
+    grades: [grade],
+    duty: duty ?? undefined,
+  });
+  warnings.push(...engine.warnings.map((w) => w.message));
+  const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
+  const verdict = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
+
+  const q = engine.flow;
+  const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;
+  const power =
+    input === null
+      ? null
+      : {
+          input,
+          hydraulic,
+          overall: hydraulic !== null && input > 0 ? hydraulic / input : null,
+          shaft,
+          pump: hydraulic !== null && shaft ? hydraulic / shaft : null,
+          curve: q !== null ? efficiencyAt(curve, q) : null,
+        };
+  if (power && power.overall !== null && power.overall > 1) warnings.push("The efficiency comes out above 100 %: a reading or its unit is wrong.");
+
+  const deviation = {
+    curveFlow: engine.flowDeviation,
+    curveHead: engine.headDeviation,
+    dutyFlow: engine.dutyDeviation?.flow ?? null,
+    dutyHead: engine.dutyDeviation?.head ?? null,
+  };
+  const speed = { rated, design, measured, rescaled, designRatio: rated !== null && design !== null ? design / rated : null };
+  const sel = sample(designCurve, rho);
+  const mea = sample(curve, rho);
+  const ev = f.systemCurve;
+  const flowMax = Math.max(curve.flowMax, designCurve.flowMax, (q ?? 0) * 1.1, (duty?.flow ?? 0) * 1.2, engine.flowBand?.high ?? 0);
+  const result: CheckResult = {
+    format: FIELD_CHECK_FORMAT,
+    grade: { id: grade.id, flow: grade.flow, head: grade.head, source: grade.source },
+    verdict,
+    verdictText: VERDICT_TEXT[verdict],
+    message: engine.message,
+    engine,
+    fluid: { name: fluid.name, density: rho },
+    speed,
+    gauges: { suction: ps, discharge: pd, headUncertainty, assumedAtmosphere: mixed },
+    duty,
+    delivered: { flow: q, head: engine.tdh },
+    deviation,
+    power,
+    hints: [],
+    warnings: [...new Set(warnings)],
+    chart: {
+      selected: sel.head,
+      measured: mea.head,
+      selectedEff: sel.eff,
+      measuredEff: mea.eff,
+      system: ev && n === 1 ? ev.flows.map((x, i) => ({ flow: x, y: ev.design[i] })) : null,
+      flowMax,
+      band: engine.flowBand ? { low: engine.flowBand.low, high: engine.flowBand.high } : null,
+      selectedLabel: `As selected${design !== null ? ` (${Math.round(design)} rpm)` : ""}`,
+      measuredLabel: rescaled ? `At the measured ${Math.round(measured!)} rpm` : "Curve compared",
+    },
+  };
+  result.hints = hintsFor(result);
+  return result;
+}
+
+/** The sentence with the delivered duty point, SI display units (m³/h, m), for the e-mail. */
+export function deliveredSentence(r: CheckResult): string {
+  const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
+  const m = (h: number) => `${h.toFixed(1)} m`;
+  const q = r.delivered.flow;
+  const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
+  const first = q !== null ? `Delivered ${m3h(q)} (${src}) at ${m(r.delivered.head)}` : `Measured head ${m(r.delivered.head)}; flow could not be inferred`;
+  const duty = r.duty ? ` (design duty ${m3h(r.duty.flow)} at ${m(r.duty.head)})` : "";
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.`;
+}

@@ -1,0 +1,29 @@
+// Field checks, public face for code that runs anywhere (server, browser, offline on the phone):
+// the form codec, the pure evaluation, the stored result's type, the tolerance cross and the CSV.
+// The database side is imported by name where it is used (records.server.ts, photos.server.ts):
+// a `.server` module re-exported here would pull server code into the browser bundle.
+export { evaluateCheck, verdictFor, gradeById, deliveredSentence, FIELD_CHECK_FORMAT, type FrozenSelection } from "./evaluate";
+export {
+  blankFields,
+  DEFAULT_GRADE,
+  DIAMETER_UNITS,
+  ELEVATION_UNITS,
+  FLOW_UNITS,
+  inputPowerW,
+  MAX_PHOTO_BYTES,
+  MAX_PHOTOS,
+  parseCheckFields,
+  POWER_UNITS,
+  PRESSURE_UNITS,
+  speedRpm,
+  TEMPERATURE_UNITS,
+  VERDICT_TEXT,
+  type CheckFields,
+  type GaugeRef,
+  type ParseResult,
+  type Readings,
+  type Verdict,
+} from "./form";
+export type { CheckResult, Pt } from "./result";
+export { crossOf, crossSentences, type CrossArm } from "./cross";
+export { historyCsv, type CheckHistoryForCsv } from "./csv";

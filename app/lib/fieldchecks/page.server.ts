@@ -1,0 +1,62 @@
+// What the check page of one selection needs: the selection (with its frozen document, so the
+// phone can work a check out offline, and its fingerprint for conflicts), its history, the
+// prefilled form (or the amended check's fields).
+import { data } from "react-router";
+import { parseId } from "../shared/forms.server";
+import type { Viewer } from "../libraries.server";
+import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
+import { checkHistory, getFieldCheck } from "./records.server";
+
+export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: "SI" | "US", amendParam: string) {
+  const history = await checkHistory(viewer, selectionId);
+  const selection = history.selection;
+  const frozen = selection.frozen;
+  const pipeOn = (side: "suction" | "discharge") => frozen.system.input.runs.find((run) => run.side === side)?.diameter;
+  let fields: CheckFields = {
+    ...blankFields(unitSystem, { suction: pipeOn("suction"), discharge: pipeOn("discharge"), temperatureC: frozen.system.input.temperatureC }),
+    gradeId: DEFAULT_GRADE,
+  };
+  let amends: { id: number; version: number } | null = null;
+  const amendId = amendParam ? parseId(amendParam) : null;
+  if (amendParam && amendId === null) throw data("Nothing lives at this address.", { status: 404 });
+  if (amendId !== null) {
+    const amended = await getFieldCheck(viewer, amendId);
+    if (amended.check.selectionId !== selection.id) throw data("That check belongs to another selection.", { status: 404 });
+    if (!amended.mayAmend) throw data("Only the workspace that recorded a check may amend it.", { status: 403 });
+    fields = { ...amended.fields, gradeId: amended.check.grade, notes: amended.check.notes };
+    amends = { id: amended.check.id, version: amended.check.version };
+  }
+  const speedRatio = frozen.adjustment.method === "speed" ? (frozen.result?.ratio ?? 1) : 1;
+  return {
+    selection: {
+      id: selection.id,
+      title: selection.title,
+      projectName: selection.projectName,
+      systemName: selection.systemName,
+      ownerWorkspace: selection.ownerWorkspace,
+      own: selection.own,
+      pump: frozen.pump.label,
+      designSpeed: frozen.pump.speed != null ? frozen.pump.speed * speedRatio : null,
+      duty: frozen.system.input.duty,
+      arrangement: frozen.adjustment.arrangement,
+      dutyPumps: frozen.adjustment.dutyPumps,
+      fingerprint: selection.fingerprint,
+      frozen,
+    },
+    history: history.checks.map((check) => ({
+      id: check.id,
+      version: check.version,
+      superseded: check.superseded,
+      verdict: check.verdict,
+      grade: check.grade,
+      createdAt: check.createdAt,
+      byName: check.byName,
+      byWorkspace: check.byWorkspace,
+      flow: check.result.delivered.flow,
+      head: check.result.delivered.head,
+      flowSource: check.result.engine.flowSource,
+    })),
+    fields,
+    amends,
+  };
+}

@@ -1,0 +1,323 @@
+// Field-check records: the selections open to a workspace for field checks, recording a check
+// (or an amendment: a new version of its chain) with its photos, exactly once per device-made id,
+// reading checks back, and the engineer's notice by e-mail. The check itself is worked out by the
+// pure `evaluate.ts` (which the phone also runs offline).
+//
+// Who sees what: a selection is open for field checks to its own workspace and to every workspace
+// its project is shared with; its checks are open to the same workspaces. Ids from elsewhere
+// answer 404, never data. A check is never edited: an amendment is a new version of its chain.
+import { createHash } from "node:crypto";
+import { and, desc, eq, inArray, or, sql } from "drizzle-orm";
+import { data } from "react-router";
+import { db, withTransaction } from "@db/client.server";
+import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
+import type { FrozenSelection } from "../projects.server";
+import type { Viewer } from "../libraries.server";
+import { sendMail } from "../mail/outbox.server";
+import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
+import { appUrl } from "../auth/accounts.server";
+import { deliveredSentence, evaluateCheck } from "./evaluate";
+import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
+import type { CheckResult } from "./result";
+import { PhotoRejected, type PhotoIn } from "./photos.server";
+
+const notFound = (what: string) => data(`No such ${what} open to this workspace.`, { status: 404 });
+
+// ── Access ─────────────────────────────────────────────────────────────────────────────────
+/** Workspace ids whose projects are shared with the viewer's workspace. */
+async function sharedProjectIds(viewer: Viewer): Promise<number[]> {
+  const rows = await db().select({ projectId: projectShares.projectId }).from(projectShares).where(eq(projectShares.workspaceId, viewer.workspace.id));
+  return rows.map((r) => r.projectId);
+}
+
+/** A selection open to the viewer for field checks: its own workspace's, or one of a project shared with it. */
+export async function fieldSelection(viewer: Viewer, selectionId: number) {
+  const [row] = await db()
+    .select({ s: selections, projectName: projects.name, projectCreatedBy: projects.createdBy, systemName: systems.name, ownerName: workspaces.name, shareId: projectShares.id })
+    .from(selections)
+    .innerJoin(projects, eq(projects.id, selections.projectId))
+    .innerJoin(systems, eq(systems.id, selections.systemId))
+    .innerJoin(workspaces, eq(workspaces.id, selections.workspaceId))
+    .leftJoin(projectShares, and(eq(projectShares.projectId, selections.projectId), eq(projectShares.workspaceId, viewer.workspace.id)))
+    .where(eq(selections.id, selectionId));
+  if (!row || (row.s.workspaceId !== viewer.workspace.id && row.shareId == null)) throw notFound("selection");
+  return {
+    id: row.s.id,
+    title: row.s.title,
+    projectId: row.s.projectId,
+    projectName: row.projectName,
+    systemName: row.systemName,
+    ownerWorkspace: row.ownerName,
+    own: row.s.workspaceId === viewer.workspace.id,
+    createdBy: row.s.createdBy,
+    projectCreatedBy: row.projectCreatedBy,
+    frozen: JSON.parse(row.s.frozenJson) as FrozenSelection,
+    /** What the phone worked against: a change of the frozen document or title is a conflict on sync. */
+    fingerprint: createHash("sha256").update(row.s.title).update("\n").update(row.s.frozenJson).digest("hex").slice(0, 32),
+  };
+}
+
+/** Selections open to the viewer: shared with their workspace, and their own workspace's. */
+export async function fieldHome(viewer: Viewer) {
+  const shared = await sharedProjectIds(viewer);
+  const where = shared.length ? or(eq(selections.workspaceId, viewer.workspace.id), inArray(selections.projectId, shared)) : eq(selections.workspaceId, viewer.workspace.id);
+  const sels = await db()
+    .select({ id: selections.id, title: selections.title, projectName: projects.name, systemName: systems.name, ownerName: workspaces.name, workspaceId: selections.workspaceId })
+    .from(selections)
+    .innerJoin(projects, eq(projects.id, selections.projectId))
+    .innerJoin(systems, eq(systems.id, selections.systemId))
+    .innerJoin(workspaces, eq(workspaces.id, selections.workspaceId))
+    .where(where)
+    .orderBy(desc(selections.id))
+    .limit(200);
+  const ids = sels.map((s) => s.id);
+  const checks = ids.length
+    ? await db()
+        .select({ id: fieldChecks.id, selectionId: fieldChecks.selectionId, version: fieldChecks.version, verdict: fieldChecks.verdict, grade: fieldChecks.grade, createdAt: fieldChecks.createdAt, byName: users.name, byWorkspace: workspaces.name })
+        .from(fieldChecks)
+        .leftJoin(users, eq(users.id, fieldChecks.createdBy))
+        .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
+        .where(inArray(fieldChecks.selectionId, ids))
+        .orderBy(desc(fieldChecks.id))
+        .limit(30)
+    : [];
+  const titleOf = new Map(sels.map((s) => [s.id, `${s.title} · ${s.projectName}`]));
+  return {
+    selections: sels.map((s) => ({ id: s.id, title: s.title, projectName: s.projectName, systemName: s.systemName, ownerName: s.ownerName, own: s.workspaceId === viewer.workspace.id })),
+    checks: checks.map((c) => ({ ...c, createdAt: c.createdAt.toISOString(), selection: titleOf.get(c.selectionId) ?? "" })),
+  };
+}
+
+type CheckRow = typeof fieldChecks.$inferSelect;
+
+/** A check open to the viewer (through its selection), with its selection. */
+export async function getFieldCheck(viewer: Viewer, checkId: number) {
+  const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, checkId));
+  if (!row) throw notFound("field check");
+  let sel;
+  try {
+    sel = await fieldSelection(viewer, row.selectionId);
+  } catch {
+    throw notFound("field check");
+  }
+  const [by] = row.createdBy ? await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, row.createdBy)) : [];
+  const [ws] = await db().select({ name: workspaces.name }).from(workspaces).where(eq(workspaces.id, row.workspaceId));
+  const photos = await db()
+    .select({ id: fieldCheckPhotos.id, filename: fieldCheckPhotos.filename, contentType: fieldCheckPhotos.contentType, sizeBytes: fieldCheckPhotos.sizeBytes })
+    .from(fieldCheckPhotos)
+    .where(eq(fieldCheckPhotos.fieldCheckId, row.id))
+    .orderBy(fieldCheckPhotos.id);
+  const chain = await db()
+    .select({ id: fieldChecks.id, version: fieldChecks.version, verdict: fieldChecks.verdict, createdAt: fieldChecks.createdAt })
+    .from(fieldChecks)
+    .where(eq(fieldChecks.chainId, row.chainId ?? row.id))
+    .orderBy(fieldChecks.version);
+  const stored = JSON.parse(row.readingsJson) as { readings: Readings; fields: CheckFields };
+  return {
+    check: row,
+    selection: sel,
+    readings: stored.readings,
+    fields: stored.fields,
+    result: JSON.parse(row.resultJson) as CheckResult,
+    recordedBy: by?.name || by?.email || "a former member",
+    recordedIn: ws?.name ?? "",
+    mayAmend: row.workspaceId === viewer.workspace.id,
+    photos,
+    versions: chain.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })),
+    latest: chain.length ? chain[chain.length - 1].id === row.id : true,
+  };
+}
+
+/** Every check of a selection, newest first. */
+export async function checkHistory(viewer: Viewer, selectionId: number) {
+  const sel = await fieldSelection(viewer, selectionId);
+  const rows = await db()
+    .select({ c: fieldChecks, byName: users.name, byWorkspace: workspaces.name })
+    .from(fieldChecks)
+    .leftJoin(users, eq(users.id, fieldChecks.createdBy))
+    .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
+    .where(eq(fieldChecks.selectionId, sel.id))
+    .orderBy(desc(fieldChecks.id));
+  const latestOfChain = new Map<number, number>();
+  for (const r of rows) {
+    const chain = r.c.chainId ?? r.c.id;
+    if (!latestOfChain.has(chain) || latestOfChain.get(chain)! < r.c.version) latestOfChain.set(chain, r.c.version);
+  }
+  return {
+    selection: sel,
+    checks: rows.map((r) => {
+      const result = JSON.parse(r.c.resultJson) as CheckResult;
+      return {
+        id: r.c.id,
+        chainId: r.c.chainId ?? r.c.id,
+        version: r.c.version,
+        superseded: latestOfChain.get(r.c.chainId ?? r.c.id)! > r.c.version,
+        verdict: r.c.verdict,
+        grade: r.c.grade,
+        notes: r.c.notes,
+        createdAt: r.c.createdAt.toISOString(),
+        byName: r.byName ?? "",
+        byWorkspace: r.byWorkspace,
+        result,
+        readings: (JSON.parse(r.c.readingsJson) as { readings: Readings }).readings,
+      };
+    }),
+  };
+}
+
+export type CheckHistory = Awaited<ReturnType<typeof checkHistory>>;
+
+// ── Recording ──────────────────────────────────────────────────────────────────────────────
+export type NewCheck = {
+  readings: Readings;
+  fields: CheckFields;
+  notes: string;
+  gradeId: string;
+  amends?: number | null;
+  /** Id made on the device (e.g. a UUID): the same id recorded twice gives the first check back. */
+  clientId?: string | null;
+  /** The selection's fingerprint the device worked against; a different one now is a conflict. */
+  basedOn?: string | null;
+};
+
+/** The selection changed (or its check chain moved on) since the device opened it: shown, never merged. */
+export class CheckConflict extends Error {
+  constructor(
+    message: string,
+    readonly current: string,
+  ) {
+    super(message);
+  }
+}
+
+/** A device-made id: 8 to 64 letters, digits, `-` or `_` (a UUID fits). */
+export const CLIENT_ID = /^[A-Za-z0-9_-]{8,64}$/;
+
+/** The check already recorded under this device id, if any (same workspace and selection only). */
+async function checkByClientId(viewer: Viewer, selectionId: number, clientId: string) {
+  const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.clientId, clientId));
+  if (!row) return null;
+  if (row.workspaceId !== viewer.workspace.id || row.selectionId !== selectionId) throw data("That check id is already used by another check.", { status: 409 });
+  return { id: row.id, result: JSON.parse(row.resultJson) as CheckResult, mail: null, duplicate: true as const };
+}
+
+function isDuplicateKey(e: unknown): boolean {
+  for (let x = e as { errno?: number; code?: string; cause?: unknown } | undefined, i = 0; x && i < 4; x = x.cause as typeof x, i++) {
+    if (x.errno === 1062 || x.code === "ER_DUP_ENTRY") return true;
+  }
+  return false;
+}
+
+/**
+ * Records a check (or an amendment: a new version of the amended check's chain) with its photos,
+ * in one transaction, then tells the engineer of the selection by e-mail. With a device id the
+ * check is recorded exactly once: a retry (even one racing the first) answers the first check
+ * with `duplicate: true`, no second row, no second e-mail.
+ */
+export async function recordFieldCheck(viewer: Viewer, selectionId: number, input: NewCheck, photos: PhotoIn[] = [], opts: { notify?: boolean } = {}) {
+  const sel = await fieldSelection(viewer, selectionId);
+  const clientId = input.clientId ?? null;
+  if (clientId !== null && !CLIENT_ID.test(clientId)) throw data("The check id made on the device is not valid.", { status: 400 });
+  if (clientId !== null) {
+    const earlier = await checkByClientId(viewer, sel.id, clientId);
+    if (earlier) return earlier;
+  }
+  if (input.basedOn && input.basedOn !== sel.fingerprint)
+    throw new CheckConflict("The selection changed after this phone opened it: the readings were not recorded against the new one. Open the selection again, look at what changed and enter the check again if it still applies.", sel.fingerprint);
+  let amended: CheckRow | null = null;
+  if (input.amends) {
+    const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, input.amends));
+    if (!row || row.selectionId !== sel.id) throw notFound("field check");
+    if (row.workspaceId !== viewer.workspace.id) throw data("Only the workspace that recorded a check may amend it.", { status: 403 });
+    amended = row;
+  }
+  const result = evaluateCheck(sel.frozen, input.readings, input.gradeId);
+  const id = await withTransaction(async (tx) => {
+    let chainId: number | null = null;
+    let version = 1;
+    let carried: (typeof fieldCheckPhotos.$inferSelect)[] = [];
+    if (amended) {
+      chainId = amended.chainId ?? amended.id;
+      // Lock the chain's first version so two amendments cannot take the same number.
+      await tx.select({ id: fieldChecks.id }).from(fieldChecks).where(eq(fieldChecks.id, chainId)).for("update");
+      const [{ v }] = await tx.select({ v: sql<number>`MAX(${fieldChecks.version})` }).from(fieldChecks).where(eq(fieldChecks.chainId, chainId));
+      version = Number(v ?? 1) + 1;
+      carried = await tx.select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, amended.id));
+      if (carried.length + photos.length > MAX_PHOTOS) throw new PhotoRejected(`At most ${MAX_PHOTOS} photos per check (${carried.length} carried from the earlier version).`);
+    }
+    const [{ id }] = await tx
+      .insert(fieldChecks)
+      .values({
+        selectionId: sel.id,
+        chainId,
+        version,
+        workspaceId: viewer.workspace.id,
+        createdBy: viewer.userId,
+        readingsJson: JSON.stringify({ readings: input.readings, fields: input.fields }),
+        resultJson: JSON.stringify(result),
+        verdict: result.verdict,
+        grade: result.grade.id,
+        notes: input.notes,
+        clientId,
+      })
+      .$returningId();
+    if (!chainId) await tx.update(fieldChecks).set({ chainId: id }).where(eq(fieldChecks.id, id));
+    for (const p of carried) await tx.insert(fieldCheckPhotos).values({ fieldCheckId: id, filename: p.filename, contentType: p.contentType, sizeBytes: p.sizeBytes, sha256: p.sha256, content: p.content });
+    for (const p of photos)
+      await tx.insert(fieldCheckPhotos).values({ fieldCheckId: id, filename: p.filename, contentType: p.contentType, sizeBytes: p.bytes.length, sha256: createHash("sha256").update(p.bytes).digest("hex"), content: p.bytes });
+    return id;
+  }).catch(async (e) => {
+    // Two copies of one device's check raced: the other one won; answer with it.
+    if (clientId !== null && isDuplicateKey(e)) return null;
+    throw e;
+  });
+  if (id === null) {
+    const winner = await checkByClientId(viewer, sel.id, clientId!);
+    if (winner) return winner;
+    throw new Error("duplicate device id but no check found");
+  }
+  const mail = opts.notify === false ? null : await notifyEngineer(viewer, sel, id, result, amended ? "amended" : "new");
+  return { id, result, mail, duplicate: false as const };
+}
+
+async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fieldSelection>>, checkId: number, r: CheckResult, kind: "new" | "amended") {
+  const userId = sel.createdBy ?? sel.projectCreatedBy;
+  if (!userId) return null;
+  const [to] = await db().select({ email: users.email, name: users.name }).from(users).where(eq(users.id, userId));
+  if (!to) return null;
+  const [me] = await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, viewer.userId));
+  const checkedBy = `${me?.name || me?.email || "A member"} (${viewer.workspace.name})`;
+  const link = `${appUrl()}/field/checks/${checkId}`;
+  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${deliveredSentence(r)}`;
+  let msg;
+  if (r.verdict === "unknown") {
+    // The shared template has words for pass / marginal / fail only; without a flow meter there is no verdict.
+    const selection = oneLine(sel.title);
+    const project = oneLine(sel.projectName);
+    const text = [
+      to.name ? `Hello ${oneLine(to.name)},` : "Hello,",
+      "",
+      `${oneLine(checkedBy)} recorded a field check on the selection “${selection}” in the project “${project}”.`,
+      "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve.",
+      detail,
+      "",
+      `Open the field check: ${link}`,
+      "",
+      "Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer.",
+    ].join("\n");
+    const html = text
+      .split("\n")
+      .map((l) => (l.startsWith("Open the field check: ") ? `<p><a href="${escapeHtml(link)}">Open the field check</a></p>` : l ? `<p>${escapeHtml(l)}</p>` : ""))
+      .join("");
+    msg = { subject: `Field check on ${selection} (${project}): no tolerance verdict`, text, html };
+  } else {
+    msg = fieldCheckMail({ engineerName: to.name, checkedBy, projectName: sel.projectName, selectionName: sel.title, verdict: r.verdict, detail, link });
+  }
+  try {
+    return await sendMail({ to: to.email, ...msg });
+  } catch (e) {
+    // The check is recorded; a mail that cannot even be queued is logged, not fatal.
+    console.error(`[fieldchecks] notice for check ${checkId} not queued: ${e instanceof Error ? e.message : e}`);
+    return null;
+  }
+}

@@ -1,0 +1,51 @@
+// A submitted check form → a recorded check. One reading of the form for both ways in: the page's
+// own form (no JavaScript: answered by a redirect) and the phone's send queue (answered in JSON).
+import { EngineInputError } from "~/engine";
+import { formId } from "../shared/forms.server";
+import type { Viewer } from "../libraries.server";
+import { gradeById } from "./evaluate";
+import { parseCheckFields, type CheckFields } from "./form";
+import { PhotoRejected, readPhotos } from "./photos.server";
+import { CheckConflict, CLIENT_ID, recordFieldCheck } from "./records.server";
+
+/** Form fields that say how to record, not what was read (never stored among the readings). */
+const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos"] as const;
+
+export type SubmitOutcome =
+  | { ok: true; id: number; duplicate: boolean }
+  | { ok: false; status: 400 | 422; errors: Record<string, string>; fields: CheckFields }
+  | { ok: false; status: 409; conflict: string; fields: CheckFields };
+
+/** Validates the form, reads the photos and records the check (once per device id). */
+export async function submitCheckForm(viewer: Viewer, selectionId: number, form: FormData): Promise<SubmitOutcome> {
+  const raw: Record<string, string> = {};
+  for (const [key, value] of form.entries()) if (typeof value === "string") raw[key] = value;
+  const parsed = parseCheckFields(raw);
+  const fields: CheckFields = { ...parsed.fields };
+  delete fields.photos;
+  const errors: Record<string, string> = parsed.ok ? {} : { ...parsed.errors };
+  const gradeId = raw.gradeId && gradeById(raw.gradeId) ? raw.gradeId : null;
+  if (!gradeId) errors.gradeId = "Choose a tolerance grade from the table.";
+  const clientId = raw.clientId ? raw.clientId : null;
+  if (clientId !== null && !CLIENT_ID.test(clientId)) errors._form = "The check id made on the device is not valid.";
+  const amends = raw.amends ? formId(form, "amends") : null;
+  if (!parsed.ok || Object.keys(errors).length) return { ok: false, status: 400, errors, fields };
+
+  const readingFields: CheckFields = { ...fields };
+  for (const key of CONTROL_FIELDS) delete readingFields[key];
+  try {
+    const photos = await readPhotos(form.getAll("photos"));
+    const recorded = await recordFieldCheck(
+      viewer,
+      selectionId,
+      { readings: parsed.readings, fields: readingFields, notes: parsed.notes, gradeId: gradeId!, amends, clientId, basedOn: raw.basedOn || null },
+      photos,
+    );
+    return { ok: true, id: recorded.id, duplicate: recorded.duplicate };
+  } catch (e) {
+    if (e instanceof PhotoRejected) return { ok: false, status: 422, errors: { photos: e.message }, fields };
+    if (e instanceof EngineInputError) return { ok: false, status: 422, errors: { _form: `These readings cannot be worked out: ${e.message}.` }, fields };
+    if (e instanceof CheckConflict) return { ok: false, status: 409, conflict: e.message, fields };
+    throw e;
+  }
+}
