@@ -1,7 +1,8 @@
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/guards.server";
-import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects.server";
+import { addCandidate, listCandidates } from "~/lib/projects.server";
+import { searchForSystem } from "~/lib/projects/search.server";
 import { viewerOf } from "~/lib/viewer.server";
 import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
