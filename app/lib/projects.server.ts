@@ -15,7 +15,6 @@ import {
   flowMaxOf,
   candidatesFlowMax,
   SystemInputSchema,
-  toPumpPoints,
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
