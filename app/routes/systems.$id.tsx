@@ -11,8 +11,9 @@ import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/permissions";
 import { readId, formId, readFormSafe } from "~/lib/forms.server";
 import { AdjustmentSchema } from "~/lib/hydraulics";
-import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, PIPE_TABLE_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
+import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
+import { PipePicker } from "~/components/system-editor/PipePicker";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { fromSI, IE_CLASSES, toSI } from "~/engine";
 
@@ -224,34 +225,8 @@ export default function SystemPage() {
                         <option value="discharge">discharge</option>
                       </select>
                     </div>
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.table`}>
-                        Pipe
-                      </label>
-                      <select id={`f-run.${i}.table`} name={`run.${i}.table`} defaultValue={r.table} className="field">
-                        <option value="">typed inner diameter</option>
-                        {PIPE_TABLE_OPTIONS.map((t) => (
-                          <option key={t.id} value={t.id}>
-                            {t.name}
-                          </option>
-                        ))}
-                      </select>
-                    </div>
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.nominal`}>
-                        Nominal size
-                      </label>
-                      <select id={`f-run.${i}.nominal`} name={`run.${i}.nominal`} defaultValue={r.nominal} className="field">
-                        <option value="">—</option>
-                        {(PIPE_TABLE_OPTIONS.find((t) => t.id === (draftInput.runs?.[i]?.pipeTable || r.table))?.sizes ?? PIPE_TABLE_OPTIONS[0].sizes).map((s) => (
-                          <option key={s} value={s}>
-                            {s}
-                          </option>
-                        ))}
-                      </select>
-                      {errors[`run.${i}.nominal`] ? <p className="text-xs text-fail">{errors[`run.${i}.nominal`]}</p> : null}
-                    </div>
-                    <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? `From the table: ${r.diameterShown}` : undefined} />
+                    <PipePicker index={i} table={r.table} nominal={r.nominal} unitSystem={d.unitSystem} error={errors[`run.${i}.nominal`]} />
+                    <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
                     <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
                     <div>
                       <label className="label" htmlFor={`f-run.${i}.material`}>
