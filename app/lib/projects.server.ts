@@ -13,11 +13,14 @@ import {
   evaluateCandidate,
   evaluateSystem,
   flowMaxOf,
+  fluidOf,
+  systemSpec,
   candidatesFlowMax,
   SystemInputSchema,
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
+import { candidateEnergy, type CandidateEnergy } from "./projects/energy";
 import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
 
 export const MAX_CANDIDATES = 6;
@@ -96,7 +99,7 @@ export async function copyProject(viewer: Viewer, projectId: number) {
     for (const s of sys) {
       const [{ id: newSys }] = await tx.insert(systems).values({ projectId: id, workspaceId: s.workspaceId, name: s.name, inputJson: s.inputJson }).$returningId();
       const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
-      if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: newSys, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+      if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: newSys, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson, purchasePriceCents: c.purchasePriceCents })));
     }
     return id;
   });
@@ -150,7 +153,7 @@ export async function copySystem(viewer: Viewer, systemId: number) {
   return withTransaction(async (tx) => {
     const [{ id }] = await tx.insert(systems).values({ projectId: s.projectId, workspaceId: s.workspaceId, name: `${s.name} (copy)`.slice(0, 160), inputJson: s.inputJson }).$returningId();
     const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
-    if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: id, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+    if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: id, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson, purchasePriceCents: c.purchasePriceCents })));
     return id;
   });
 }
@@ -184,6 +187,8 @@ export type CandidateView = {
   library: string;
   adjustment: Adjustment;
   set: LibraryCurveSet;
+  /** Purchase price, integer cents of the workspace's currency (null: not given). */
+  purchasePriceCents: number | null;
 };
 
 export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
@@ -213,6 +218,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
         library: r.libraryName,
         adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
         set,
+        purchasePriceCents: r.c.purchasePriceCents ?? null,
       };
     })
     .filter((c) => c.set);
@@ -268,12 +274,28 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   const currency = await workspaceCurrency(viewer.workspace.id);
   const evaluated = cands.map((c) => {
     try {
-      return { ...c, result: evaluateCandidate(system.input, c.set, c.adjustment, { catalogue: catalogueOf(c.set), currency }), error: null as string | null };
+      const result = evaluateCandidate(system.input, c.set, c.adjustment, { catalogue: catalogueOf(c.set), currency });
+      return { ...c, result, energy: energyOf(system.input, { adjustment: c.adjustment, result }, c.purchasePriceCents), error: null as string | null };
     } catch (e) {
-      return { ...c, result: null, error: e instanceof Error ? e.message : String(e) };
+      return { ...c, result: null, energy: null as CandidateEnergy | null, error: e instanceof Error ? e.message : String(e) };
     }
   });
   return { system, evaluation, systemError, candidates: evaluated, flowMax };
+}
+
+/** Duty-cycle energy and life-cycle cost of an evaluated candidate (app/lib/projects/energy.ts). */
+function energyOf(input: SystemInput, c: Parameters<typeof candidateEnergy>[3], priceCents: number | null): CandidateEnergy | null {
+  try {
+    return candidateEnergy(input, systemSpec(input), fluidOf(input).density, c, priceCents);
+  } catch {
+    return null; // inputs the engine refuses: the candidate's own error already says why
+  }
+}
+
+/** Sets or clears a candidate's purchase price (integer cents; null clears). */
+export async function setCandidatePrice(viewer: Viewer, candidateId: number, cents: number | null) {
+  const c = await ownCandidate(viewer, candidateId);
+  await db().update(candidates).set({ purchasePriceCents: cents }).where(eq(candidates.id, c.id));
 }
 
 /** What the model publishes (for the verdict's catalogue rule). */
@@ -320,6 +342,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
     },
     adjustment: cand.adjustment,
     result: cand.result,
+    energy: cand.energy,
     flowMax: bench.flowMax,
   };
   const [{ id }] = await db()
@@ -348,6 +371,8 @@ export type FrozenSelection = {
   pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
   adjustment: Adjustment;
   result: ReturnType<typeof evaluateCandidate>;
+  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
+  energy?: CandidateEnergy | null;
   flowMax: number;
 };
 

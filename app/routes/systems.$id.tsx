@@ -4,7 +4,8 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation } from "rea
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/guards.server";
-import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, systemWorkbench } from "~/lib/projects.server";
+import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects.server";
+import { DEFAULT_ENERGY_SETTINGS, readPriceCents } from "~/lib/projects/energy";
 import { viewerOf } from "~/lib/viewer.server";
 import { workspaceCurrency } from "~/lib/accounts.server";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
@@ -14,6 +15,8 @@ import { AdjustmentSchema } from "~/lib/hydraulics";
 import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
 import { PipePicker } from "~/components/system-editor/PipePicker";
+import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
+import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { fromSI, IE_CLASSES, toSI } from "~/engine";
 
@@ -77,6 +80,13 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (!adj.success) return { errors: { [`adj.${candidateId}`]: adj.issues.map((i) => i.message).join("; ") }, notice: null };
       await adjustCandidate(viewer, candidateId, adj.output);
       return { errors: {}, notice: "Candidate adjusted." };
+    }
+    case "price": {
+      const candidateId = formId(form, "candidateId");
+      const cents = readPriceCents(form.get("purchasePrice"));
+      if (cents === undefined) return { errors: { [`price.${candidateId}`]: "The purchase price is a number ≥ 0 (blank clears it)." }, notice: null };
+      await setCandidatePrice(viewer, candidateId, cents);
+      return { errors: {}, notice: cents === null ? "Purchase price cleared." : "Purchase price set." };
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
@@ -206,6 +216,7 @@ export default function SystemPage() {
               ) : null}
             </section>
 
+            <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} />
             <section className="panel space-y-3">
               <h2 className="font-semibold">Pipe runs</h2>
               <input type="hidden" name="runCount" value={f.runs.length} />
@@ -332,6 +343,7 @@ export default function SystemPage() {
               />
             )}
           </section>
+          <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
           {d.canWrite ? (
             <div className="no-print flex gap-2">
               <Form method="post">

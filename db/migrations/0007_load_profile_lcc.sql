@@ -1,0 +1,1 @@
+ALTER TABLE `candidates` ADD `purchase_price_cents` bigint unsigned;
