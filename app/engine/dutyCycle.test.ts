@@ -95,6 +95,16 @@ describe("duty-cycle edges", () => {
     const past = dutyCycleEnergy({ ...base, designFlow: 16 * M3H, systemHead: () => 1, profile: [{ flowFraction: 1.5, hours: 10 }] });
     expect(past.steps[0].status).toBe("beyond-curve"); // 24 m³/h > 20 m³/h, the curve's end
   });
+  it("a step needing less than the lowest speed runs at the lowest speed, throttled (common practice)", () => {
+    // System curve, 50 % flow needs 50 % speed; with a 60 % lowest speed the pump is held at 60 %.
+    const r = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97, minSpeedRatio: 0.6 });
+    expect(r.steps[1].status).toBe("ok");
+    expect(r.steps[1].speedRatio).toBe(0.6);
+    expect(r.steps[1].message).toMatch(/lowest speed 60 %/);
+    // Head on the 60 % curve at 5 m³/h: 0.36 × H(5/0.6 m³/h) > the system's 4.5 m (affinity laws).
+    expect(r.steps[1].head!).toBeGreaterThan(4.5);
+    expect(r.steps[1].shaftPower!).toBeGreaterThan(75); // more than the ideal 600 × 0.5³ W
+  });
   it("zero hours: the point is computed, its energy is zero, and a zero-hour step the pump cannot meet leaves the total complete", () => {
     const r = dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 0 }, { flowFraction: 1.5, hours: 0 }] });
     expect(r.steps[0].status).toBe("ok");

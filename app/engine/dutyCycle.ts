@@ -13,7 +13,8 @@
  *                            reference control curve as EN 16297-1 for circulators, from memory)
  *   `system-curve`           H = the system's head at Q (ideal control: no excess head)
  *   with H_set = the system's head at the design flow. Speed by the affinity laws (Q ∝ N, H ∝ N²,
- *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %.
+ *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %. A step
+ *   that would need less than the lowest speed runs at the lowest speed, throttled (common practice).
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -191,6 +192,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     let n = 1;
     let shaft: number | null;
     let eta: number | null;
+    let lowest = false;
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
@@ -204,11 +206,18 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
       if (!(head > 0)) return none("beyond-curve", `the control asks for ${head.toFixed(2)} m at ${m3h(q)}: no pumping needed at this step`);
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
-      if (sol.status !== "ok" || sol.ratio === null) {
-        const status: StepStatus = sol.status === "duty-below-limit" ? "below-speed-range" : "beyond-curve";
-        return none(status, `${m3h(q)} at ${head.toFixed(2)} m: ${sol.message}`, head);
-      }
-      n = sol.ratio;
+      if (sol.status === "duty-below-limit") {
+        // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
+        // the point on the lowest-speed curve at this flow (affinity laws).
+        const q1 = q / minSpeed;
+        const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
+        if (h1 === null) return none("below-speed-range", `${m3h(q)} needs less than the lowest speed ${(minSpeed * 100).toFixed(0)} % and lies off the curve there`, head);
+        head = h1 * minSpeed * minSpeed;
+        n = minSpeed;
+        lowest = true;
+      } else if (sol.status !== "ok" || sol.ratio === null) {
+        return none("beyond-curve", `${m3h(q)} at ${head.toFixed(2)} m: ${sol.message}`, head);
+      } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
       shaft = p1 === null ? null : p1 * n ** 3;
@@ -228,7 +237,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
       energyKWh: (electricalPower * s.hours) / 1000, status: "ok",
-      message: vfd ? `${(n * 100).toFixed(1)} % speed` : "full speed, throttled",
+      message: lowest ? `held at the lowest speed ${(n * 100).toFixed(0)} %, throttled` : vfd ? `${(n * 100).toFixed(1)} % speed` : "full speed, throttled",
     };
   });
   const complete = steps.every((s) => s.status === "ok" || s.hours === 0);

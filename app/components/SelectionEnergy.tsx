@@ -1,0 +1,28 @@
+// The selection report's duty cycle and life-cycle cost (as frozen with the selection).
+import type { CandidateEnergy } from "~/lib/projects/energy";
+import { CandidateCycle } from "~/components/CandidateEnergy";
+import { LifeCycleChart } from "~/components/LifeCycleChart";
+import type { UnitSystem } from "~/components/units";
+
+export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitSystem; currency: string }) {
+  const e = c.energy;
+  if (!e) return null; // selections frozen before load profiles have none
+  return (
+    <section className="panel break-inside-avoid space-y-2" aria-labelledby="sel-energy-h">
+      <h2 id="sel-energy-h" className="font-semibold">
+        Energy over the duty cycle and life-cycle cost
+      </h2>
+      <p className="text-xs text-slate-600">
+        Control: {e.controlLabel}. Profile: {e.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {e.profileLabel}.
+      </p>
+      <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
+      {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: c.label, cumulative: e.lcc.cumulative }]} /> : null}
+      <ul className="list-disc pl-5 text-xs text-slate-600">
+        {e.assumptions.map((a) => (
+          <li key={a}>{a}</li>
+        ))}
+        {e.lcc ? <li>Life-cycle cost: {e.lcc.source}.</li> : null}
+      </ul>
+    </section>
+  );
+}
