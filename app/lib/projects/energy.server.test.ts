@@ -88,7 +88,7 @@ describe("duty cycle and life-cycle cost on the workbench", () => {
   });
 
   test("the purchase price is set and cleared through the page's action, counted in the LCC, and frozen with a selection", async () => {
-    const post = (price: string) => call(systemPage.action, { path: `/systems/${systemId}`, cookie: m.cookie, params: { id: String(systemId) }, form: { intent: "price", candidateId: String(candidateId), purchasePrice: price } });
+    const post = (price: string) => call(systemPage.action as never, { path: `/systems/${systemId}`, cookie: m.cookie, params: { id: String(systemId) }, form: { intent: "price", candidateId: String(candidateId), purchasePrice: price } });
     expect((await post("abc")).body).toMatchObject({ errors: { [`price.${candidateId}`]: expect.stringMatching(/number/) } });
     expect((await post("-5")).body).toMatchObject({ errors: { [`price.${candidateId}`]: expect.any(String) } });
     await post("2 450,50");
