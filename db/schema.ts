@@ -402,6 +402,8 @@ export const candidates = mysqlTable(
       .notNull()
       .references(() => curveSets.id, { onDelete: "cascade" }),
     adjustmentJson: text("adjustment_json").notNull(),
+    /** Purchase price for the life-cycle cost, integer cents of the workspace's currency; null: not given. */
+    purchasePriceCents: bigint("purchase_price_cents", { mode: "number", unsigned: true }),
     createdAt: createdAt(),
   },
   (t) => [index("candidates_system_idx").on(t.systemId)],

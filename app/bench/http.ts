@@ -49,7 +49,7 @@ function bareServer(): Promise<{ url: string; close: () => Promise<void> }> {
   );
 }
 
-async function appServer(port: number): Promise<{ url: string; pid: number; close: () => Promise<void> }> {
+export async function appServer(port: number): Promise<{ url: string; pid: number; close: () => Promise<void> }> {
   const child = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
     cwd: ROOT,
     env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: `http://127.0.0.1:${port}`, MAIL_FLUSH_INTERVAL_MS: "0" },
@@ -97,7 +97,7 @@ async function cpuPerRequest(pid: number, send: () => Promise<unknown>, n = 600)
 }
 
 /** 10 000 curve sets (1000 models × 10 curves × 8 points), imported through the service like any upload. */
-function bigLibraryCsv(models = 1000): string {
+export function bigLibraryCsv(models = 1000, first = 0): string {
   const lines = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m"];
   for (let m = 0; m < models; m++) {
     const scale = 0.5 + (m % 50) / 25; // 0.5 … 2.46
@@ -111,7 +111,7 @@ function bigLibraryCsv(models = 1000): string {
           const h = h0 * (1 - 0.6 * (q / qmax) ** 2);
           const eta = Math.max(0.01, 0.78 * (1 - ((q / qmax - 0.7) / 0.7) ** 2));
           const p = (998.2 * 9.80665 * (q / 3600) * h) / eta / 1000 + 0.1;
-          lines.push(`Bench ${m},end-suction,DN${50 + (m % 8) * 25},${speed},${d},${q.toFixed(2)},${h.toFixed(2)},${(i === 0 ? 0 : eta * 100).toFixed(1)},${p.toFixed(3)},${(1 + 3 * (q / qmax) ** 2).toFixed(2)}`);
+          lines.push(`Bench ${first + m},end-suction,DN${50 + (m % 8) * 25},${speed},${d},${q.toFixed(2)},${h.toFixed(2)},${(i === 0 ? 0 : eta * 100).toFixed(1)},${p.toFixed(3)},${(1 + 3 * (q / qmax) ** 2).toFixed(2)}`);
         }
       }
     }
@@ -119,7 +119,7 @@ function bigLibraryCsv(models = 1000): string {
   return lines.join("\n");
 }
 
-async function timed(url: string, cookie: string, n: number) {
+export async function timed(url: string, cookie: string, n: number) {
   const times: number[] = [];
   for (let i = 0; i < n; i++) {
     const t0 = performance.now();

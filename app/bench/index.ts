@@ -7,6 +7,7 @@ const benches = [
   ["Engine", "app/bench/engine.ts"],
   ["Import vs LOAD DATA", "app/bench/import.ts"],
   ["HTTP", "app/bench/http.ts"],
+  ["Search page at catalogue scale", "app/bench/search-page.ts"],
   ["Mapping page of a 200 000-row upload", "app/bench/mapping-page.ts"],
 ] as const;
 

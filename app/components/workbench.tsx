@@ -6,6 +6,7 @@ import type { WorkbenchView } from "~/lib/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/candidate-judgement";
+import { energyRows } from "~/components/CandidateEnergy";
 
 type Cand = WorkbenchView["candidates"][number];
 
@@ -195,6 +196,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Electrical input", (c) => fmtPower(unitSystem, c.result?.figures?.motor?.electricalPower)],
     ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${fmtNum(c.result.figures.annualEnergyKWh, 0)} kWh` : "—")],
     ["Energy cost per year", (c) => money(c.result?.figures?.annualCost, c.result?.figures?.motor?.currency)],
+    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
   ];
   return (
     <div className="overflow-x-auto">

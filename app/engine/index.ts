@@ -72,3 +72,9 @@ export {
   nextStandardRating, suggestMotor, motorEfficiency, polesForSpeed, annualEnergy,
   type IeClass, type MotorSuggestion, type EnergyFigures,
 } from "./motor.ts";
+export {
+  dutyCycleEnergy, defaultCirculatorProfile, CONTROL_MODES, CIRCULATOR_PROFILE_SHARES, CIRCULATOR_PROFILE_SOURCE, PROPORTIONAL_ZERO_FLOW,
+  MAX_FLOW_FRACTION, MAX_STEPS, MOTOR_PART_LOAD, DRIVE_PART_LOAD, PART_LOAD_SOURCE,
+  type ControlMode, type DutyStep, type DutyCycleInput, type DutyCycleResult, type StepResult, type StepStatus,
+} from "./dutyCycle.ts";
+export { lifeCycleCost, LCC_SOURCE, type LifeCycleInput, type LifeCycleResult } from "./lifeCycleCost.ts";

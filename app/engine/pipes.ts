@@ -1,5 +1,6 @@
 /**
- * Pipe catalogue (data) and materials (roughness, Hazen-Williams C).
+ * Pipe catalogue (data) and materials (roughness, Hazen-Williams C). Inch tables here; the
+ * metric (DN) tables of EN 10255, EN 10217 / ISO 4200, EN 1057, ISO 4427 and EN 545 in pipesDN.ts.
  *
  * Every table carries its source. Values recalled rather than re-read from the standard are
  * labelled "from memory": keep them as data, correct them here when the standard is at hand.
@@ -7,6 +8,7 @@
  * A typed inner diameter is always allowed wherever a catalogue size can be used.
  */
 import { EngineInputError, requirePositive } from "./errors.ts";
+import { DN_TABLES } from "./pipesDN.ts";
 
 /** One nominal size: outside diameter and wall, m; inner diameter derived, m. */
 export interface PipeSize {
@@ -26,6 +28,8 @@ export interface PipeTable {
   id: string;
   /** Display name. */
   name: string;
+  /** The standard it belongs to (the editor groups tables by it). */
+  standard: string;
   /** Material id in {@link MATERIALS}. */
   material: string;
   /** Where the dimensions come from (standard, and "from memory" when recalled). */
@@ -39,6 +43,7 @@ const IN = 0.0254;
 function table(
   id: string,
   name: string,
+  standard: string,
   material: string,
   source: string,
   rows: readonly (readonly [string, number, number])[],
@@ -47,6 +52,7 @@ function table(
   return {
     id,
     name,
+    standard,
     material,
     source,
     sizes: rows.map(([nominal, odIn, wallIn]) => ({
@@ -108,20 +114,21 @@ const ductileLining = (n: string) => (Number(n) >= 14 ? 3 / 32 : 1 / 16);
 
 /** All catalogue tables. */
 export const PIPE_TABLES: readonly PipeTable[] = [
-  table("steel-sch40", "Steel, Schedule 40", "steel",
+  table("steel-sch40", "Steel, Schedule 40", "ASME B36.10M", "steel",
     "ASME B36.10M welded and seamless wrought steel pipe (from memory; inch dimensions)", steelRows(0)),
-  table("steel-sch80", "Steel, Schedule 80", "steel",
+  table("steel-sch80", "Steel, Schedule 80", "ASME B36.10M", "steel",
     "ASME B36.10M welded and seamless wrought steel pipe (from memory; inch dimensions)", steelRows(1)),
-  table("copper-k", "Copper tube, type K", "copper",
+  table("copper-k", "Copper tube, type K", "ASTM B88", "copper",
     "ASTM B88 seamless copper water tube (from memory)", COPPER.map(([n, od, k]) => [n, od, k] as const)),
-  table("copper-l", "Copper tube, type L", "copper",
+  table("copper-l", "Copper tube, type L", "ASTM B88", "copper",
     "ASTM B88 seamless copper water tube (from memory)", COPPER.map(([n, od, , l]) => [n, od, l] as const)),
-  table("pvc-sch40", "PVC, Schedule 40", "pvc",
+  table("pvc-sch40", "PVC, Schedule 40", "ASTM D1785", "pvc",
     "ASTM D1785 PVC pipe, minimum wall (from memory); ID = OD − 2 × minimum wall", pvcRows(0)),
-  table("pvc-sch80", "PVC, Schedule 80", "pvc",
+  table("pvc-sch80", "PVC, Schedule 80", "ASTM D1785", "pvc",
     "ASTM D1785 PVC pipe, minimum wall (from memory); ID = OD − 2 × minimum wall", pvcRows(1)),
-  table("ductile-pc350", "Ductile iron, pressure class 350, cement-mortar lined", "ductile-iron-lined",
+  table("ductile-pc350", "Ductile iron, pressure class 350, cement-mortar lined", "AWWA C151", "ductile-iron-lined",
     "AWWA C151 pressure class 350 with AWWA C104 standard lining (from memory)", DUCTILE, ductileLining),
+  ...DN_TABLES,
 ];
 
 /**

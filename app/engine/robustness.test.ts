@@ -143,6 +143,10 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
   const gauge = (p: number) => ({ pressure: p, elevation: 0, pipeDiameter: 0.1 });
   type Arg = (x: number) => unknown;
   /** name → [call with the probed number, ordinary value, out-of-domain values] per numeric parameter. */
+  const qd = 50 / 3600;
+  const dc = (o: Partial<E.DutyCycleInput>): E.DutyCycleInput => ({ curve, systemHead: (q) => 28 * (q / qd) ** 2, designFlow: qd, mode: "system-curve",
+    profile: [{ flowFraction: 1, hours: 500 }, { flowFraction: 0.5, hours: 2000 }], density: 998, motor: { rating: 5500, efficiency: 0.9 }, driveEfficiency: 0.97, ...o });
+  const lcc = (o: Partial<E.LifeCycleInput>): E.LifeCycleInput => ({ purchasePrice: 1000, annualEnergyKWh: 1e4, tariffPerKWh: 0.2, years: 10, escalation: 0.03, discountRate: 0.05, ...o });
   const numeric: Record<string, [Arg, number, number[]][]> = {
     colebrook: [[(x) => E.colebrook(x, 1e-4), 1e5, [0, -1]], [(x) => E.colebrook(1e5, x), 1e-4, [-1e-4]]],
     colebrookResidual: [[(x) => E.colebrookResidual(x, 1e5, 1e-4), 0.02, [0, -0.02]], [(x) => E.colebrookResidual(0.02, x, 1e-4), 1e5, [0]]],
@@ -228,6 +232,18 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       [(x) => E.annualEnergy({ shaftPower: 5000, motorEfficiency: 0.9, driveEfficiency: x, hoursPerYear: 4000, tariffPerKWh: 0.2 }), 0.97, [0, 1.5]],
       [(x) => E.annualEnergy({ shaftPower: 5000, motorEfficiency: 0.9, driveEfficiency: null, hoursPerYear: x, tariffPerKWh: 0.2 }), 4000, [-1, 9000]],
       [(x) => E.annualEnergy({ shaftPower: 5000, motorEfficiency: 0.9, driveEfficiency: null, hoursPerYear: 4000, tariffPerKWh: x }), 0.2, [-1]]],
+    dutyCycleEnergy: [[(x) => E.dutyCycleEnergy(dc({ designFlow: x })), 50 / 3600, [0, -1]],
+      [(x) => E.dutyCycleEnergy(dc({ profile: [{ flowFraction: x, hours: 1000 }] })), 0.5, [0, -1, 2]],
+      [(x) => E.dutyCycleEnergy(dc({ profile: [{ flowFraction: 0.5, hours: x }] })), 1000, [-1, 9000]],
+      [(x) => E.dutyCycleEnergy(dc({ motor: { rating: x, efficiency: 0.9 } })), 5500, [0, -1]],
+      [(x) => E.dutyCycleEnergy(dc({ motor: { rating: 5500, efficiency: x } })), 0.9, [0, 1.5]],
+      [(x) => E.dutyCycleEnergy(dc({ driveEfficiency: x })), 0.97, [0, 1.5]],
+      [(x) => E.dutyCycleEnergy(dc({ density: x })), 998, [0, -1]],
+      [(x) => E.dutyCycleEnergy(dc({ minSpeedRatio: x })), 0.3, [0, 1]]],
+    defaultCirculatorProfile: [[(x) => E.defaultCirculatorProfile(x), 4000, [-1, 9000]]],
+    lifeCycleCost: [[(x) => E.lifeCycleCost(lcc({ purchasePrice: x })), 1000, [-1]], [(x) => E.lifeCycleCost(lcc({ annualEnergyKWh: x })), 1e4, [-1]],
+      [(x) => E.lifeCycleCost(lcc({ tariffPerKWh: x })), 0.2, [-1]], [(x) => E.lifeCycleCost(lcc({ years: x })), 10, [0, 2.5, 51]],
+      [(x) => E.lifeCycleCost(lcc({ escalation: x })), 0.03, [-0.6, 1.5]], [(x) => E.lifeCycleCost(lcc({ discountRate: x })), 0.05, [-0.01, 1.5]]],
     toSI: [[(x) => E.toSI("flow", "m3/h", x), 1, []]],
     fromSI: [[(x) => E.fromSI("flow", "m3/h", x), 1, []]],
     convert: [[(x) => E.convert("flow", x, "m3/h", "gpm"), 1, []]],
@@ -268,6 +284,8 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     ["fieldCheck grades", () => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: 0.01, grades: [{ id: "x" } as never] })],
     ["motorEfficiency ieClass", () => E.motorEfficiency(7500, "IE5" as never)],
     ["motorEfficiency poles", () => E.motorEfficiency(7500, "IE3", 6 as never)],
+    ["dutyCycleEnergy mode", () => E.dutyCycleEnergy(dc({ mode: "vfd" as never }))],
+    ["dutyCycleEnergy VFD mode without a drive", () => E.dutyCycleEnergy(dc({ mode: "constant-pressure", driveEfficiency: null }))],
     ["toSI quantity", () => E.toSI("Flow" as never, "m3/h", 1)],
     ["toSI unit", () => E.toSI("flow", "m3/hr", 1)],
   ];

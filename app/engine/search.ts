@@ -314,7 +314,11 @@ export function searchDuty(
   const trimMinRatio = 1 - maxTrim;
   const hdHigh = hd * (1 + tol);
 
-  const found: Candidate[] = [];
+  // Every match is kept as numbers in parallel arrays (no object per match: a large library can match
+  // tens of thousands of sets); only the `limit` best become Candidate objects.
+  const fE: number[] = [], fMethod: number[] = [], fRatio: number[] = [], fHead: number[] = [];
+  const fEff: (number | null)[] = [], fBep: (number | null)[] = [], fNpshr: (number | null)[] = [], fMargin: (number | null)[] = [], fPower: (number | null)[] = [];
+  const METHODS = ["direct", "trim", "speed"] as const;
   let rejectedByEnvelope = 0, evaluated = 0;
 
   const fMin = idx.flowMin, fMax = idx.flowMax, hMax = idx.headMax;
@@ -322,65 +326,75 @@ export function searchDuty(
     if (qd > fMax[e] * grow || hd > hMax[e] * grow * grow) { rejectedByEnvelope++; continue; }
     evaluated++;
     const h1 = qd >= fMin[e] && qd <= fMax[e] ? (evalPacked(idx.head, e, qd) as number) : null;
-    let method: Candidate["method"] | null = null;
+    let method = -1;
     let ratio = 1;
     let kk = 1;
     for (const m of methods) {
       if (m === "direct" && useDirect) {
-        if (h1 !== null && h1 >= hd && h1 <= hdHigh) { method = "direct"; break; }
+        if (h1 !== null && h1 >= hd && h1 <= hdHigh) { method = 0; break; }
       } else if (m === "trim" && useTrim) {
         if ((h1 !== null && h1 > hd) || (h1 === null && qd < fMin[e])) {
           const r = solveScale(idx, e, qd, hd, k, trimMinRatio, 1);
           const dia = idx.diameter[e], dMin = idx.minDiameter[e];
           if (r !== null && (dMin < 0 || dia < 0 || dia * r >= dMin * (1 - 1e-9))) {
-            method = "trim"; ratio = r; kk = k; break;
+            method = 1; ratio = r; kk = k; break;
           }
         }
       } else if (m === "speed" && useSpeed) {
         const r = solveScale(idx, e, qd, hd, 1, sLo, sHi);
-        if (r !== null) { method = "speed"; ratio = r; kk = 1; break; }
+        if (r !== null) { method = 2; ratio = r; kk = 1; break; }
       }
     }
-    if (method === null) continue;
+    if (method < 0) continue;
     const qOrig = Math.min(fMax[e], qd / Math.pow(ratio, kk)); // flow on the original curve that maps to the duty flow (rounding at the end clamped)
-    const headAtDuty = method === "direct" ? (h1 as number) : hd;
+    const headAtDuty = method === 0 ? (h1 as number) : hd;
     const eff = evalPacked(idx.eff, e, qOrig);
     const bepQ = idx.bepFlow[e] < 0 ? null : idx.bepFlow[e] * Math.pow(ratio, kk);
     const bepRatio = bepQ ? qd / bepQ : null;
     let npshr: number | null = null;
     const n0 = evalPacked(idx.npshr, e, qOrig);
-    if (n0 !== null) npshr = method === "speed" ? n0 * ratio * ratio : n0;
+    if (n0 !== null) npshr = method === 2 ? n0 * ratio * ratio : n0;
     const npshMargin = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
     if (npshMargin !== null && npshMargin < 1) continue; // cavitation: cannot meet the duty
-    const shaftPower = eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null;
-    const warnings: EngineWarning[] = [];
-    if (method === "trim") warnings.push({ code: "trim-approximate", message: `trim by the ${law} law is approximate` });
-    found.push({
-      id: idx.ids[e], label: idx.labels[e], method, ratio,
-      diameter: idx.diameter[e] < 0 ? null : method === "trim" ? idx.diameter[e] * ratio : idx.diameter[e],
-      speed: idx.speed[e] < 0 ? null : method === "speed" ? idx.speed[e] * ratio : idx.speed[e],
-      headAtDuty, efficiency: eff, bepRatio, inPor: bepRatio === null ? null : bepRatio >= 0.7 && bepRatio <= 1.2,
-      npshr, npshMargin, shaftPower, score: 0, rank: 0, reason: "", warnings,
-    });
+    fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty);
+    fEff.push(eff); fBep.push(bepRatio); fNpshr.push(npshr); fMargin.push(npshMargin);
+    fPower.push(eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null);
   }
+  const matched = fE.length;
 
   // Score: efficiency first; penalties for distance from BEP, thin NPSH margin, extra power.
   let minPower = Infinity;
-  for (const c of found) {
-    if (c.shaftPower !== null && c.shaftPower < minPower) minPower = c.shaftPower;
+  for (let j = 0; j < matched; j++) {
+    const p = fPower[j];
+    if (p !== null && p < minPower) minPower = p;
   }
-  for (const c of found) {
-    let s = c.efficiency ?? 0.3;
-    if (c.bepRatio !== null) s -= 0.5 * Math.abs(c.bepRatio - 1);
+  const score = new Float64Array(matched);
+  for (let j = 0; j < matched; j++) {
+    let s = fEff[j] ?? 0.3;
+    const bepRatio = fBep[j], npshMargin = fMargin[j], shaftPower = fPower[j];
+    if (bepRatio !== null) s -= 0.5 * Math.abs(bepRatio - 1);
     else s -= 0.1;
-    if (c.npshMargin !== null && c.npshMargin < reqMargin) s -= 0.1 * (reqMargin - c.npshMargin) / (reqMargin - 1 || 1) + 0.05;
-    if (c.shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (c.shaftPower / minPower - 1);
-    c.score = s;
+    if (npshMargin !== null && npshMargin < reqMargin) s -= 0.1 * (reqMargin - npshMargin) / (reqMargin - 1 || 1) + 0.05;
+    if (shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (shaftPower / minPower - 1);
+    score[j] = s;
   }
-  found.sort((a, b) => b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const top = found.slice(0, limit);
-  explainRanks(top, found.length, reqMargin);
-  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched: found.length } });
+  const order = Array.from({ length: matched }, (_, j) => j);
+  const ids = idx.ids;
+  order.sort((a, b) => score[b] - score[a] || (ids[fE[a]] < ids[fE[b]] ? -1 : ids[fE[a]] > ids[fE[b]] ? 1 : 0));
+  const top: Candidate[] = order.slice(0, limit).map((j) => {
+    const e = fE[j], method = METHODS[fMethod[j]], ratio = fRatio[j], bepRatio = fBep[j];
+    const warnings: EngineWarning[] = [];
+    if (method === "trim") warnings.push({ code: "trim-approximate", message: `trim by the ${law} law is approximate` });
+    return {
+      id: ids[e], label: idx.labels[e], method, ratio,
+      diameter: idx.diameter[e] < 0 ? null : method === "trim" ? idx.diameter[e] * ratio : idx.diameter[e],
+      speed: idx.speed[e] < 0 ? null : method === "speed" ? idx.speed[e] * ratio : idx.speed[e],
+      headAtDuty: fHead[j], efficiency: fEff[j], bepRatio, inPor: bepRatio === null ? null : bepRatio >= 0.7 && bepRatio <= 1.2,
+      npshr: fNpshr[j], npshMargin: fMargin[j], shaftPower: fPower[j], score: score[j], rank: 0, reason: "", warnings,
+    };
+  });
+  explainRanks(top, matched, reqMargin);
+  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched } });
 }
 
 /** What a row is, in words (how it meets the duty and its figures). */

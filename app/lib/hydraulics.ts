@@ -33,6 +33,7 @@ import {
   type PumpPoint,
   type SystemSpec,
 } from "~/engine";
+import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./projects/energy";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, verdictOnBand, type BandPoint, type MotorFigures } from "./candidate-judgement";
 
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
@@ -103,6 +104,8 @@ export const SystemInputSchema = v.object({
     }),
     { ...DEFAULT_FLOW_TOLERANCE },
   ),
+  /** Load profile, control mode and life-cycle cost settings (documents stored before them parse with the defaults). */
+  energy: v.optional(EnergySettingsSchema, () => ({ ...DEFAULT_ENERGY_SETTINGS })),
 });
 
 export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
@@ -146,6 +149,7 @@ export function defaultSystemInput(): SystemInput {
     tariffPerKWh: 0.2,
     npshMargin: 1.1,
     flowTolerance: { ...DEFAULT_FLOW_TOLERANCE },
+    energy: { ...DEFAULT_ENERGY_SETTINGS },
   };
 }
 

@@ -5,7 +5,6 @@ import { data } from "react-router";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
-import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type Verdict } from "~/engine";
 import { workspaceCurrency } from "./workspaces";
 import {
   AdjustmentSchema,
@@ -14,12 +13,14 @@ import {
   evaluateCandidate,
   evaluateSystem,
   flowMaxOf,
+  fluidOf,
+  systemSpec,
   candidatesFlowMax,
   SystemInputSchema,
-  toPumpPoints,
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
+import { candidateEnergy, type CandidateEnergy } from "./projects/energy";
 import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
 
 export const MAX_CANDIDATES = 6;
@@ -98,7 +99,7 @@ export async function copyProject(viewer: Viewer, projectId: number) {
     for (const s of sys) {
       const [{ id: newSys }] = await tx.insert(systems).values({ projectId: id, workspaceId: s.workspaceId, name: s.name, inputJson: s.inputJson }).$returningId();
       const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
-      if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: newSys, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+      if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: newSys, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson, purchasePriceCents: c.purchasePriceCents })));
     }
     return id;
   });
@@ -152,7 +153,7 @@ export async function copySystem(viewer: Viewer, systemId: number) {
   return withTransaction(async (tx) => {
     const [{ id }] = await tx.insert(systems).values({ projectId: s.projectId, workspaceId: s.workspaceId, name: `${s.name} (copy)`.slice(0, 160), inputJson: s.inputJson }).$returningId();
     const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
-    if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: id, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson })));
+    if (cands.length) await tx.insert(candidates).values(cands.map((c) => ({ systemId: id, curveSetId: c.curveSetId, adjustmentJson: c.adjustmentJson, purchasePriceCents: c.purchasePriceCents })));
     return id;
   });
 }
@@ -186,6 +187,8 @@ export type CandidateView = {
   library: string;
   adjustment: Adjustment;
   set: LibraryCurveSet;
+  /** Purchase price, integer cents of the workspace's currency (null: not given). */
+  purchasePriceCents: number | null;
 };
 
 export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
@@ -215,6 +218,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
         library: r.libraryName,
         adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
         set,
+        purchasePriceCents: r.c.purchasePriceCents ?? null,
       };
     })
     .filter((c) => c.set);
@@ -270,12 +274,28 @@ export async function systemWorkbench(viewer: Viewer, systemId: number, inputOve
   const currency = await workspaceCurrency(viewer.workspace.id);
   const evaluated = cands.map((c) => {
     try {
-      return { ...c, result: evaluateCandidate(system.input, c.set, c.adjustment, { catalogue: catalogueOf(c.set), currency }), error: null as string | null };
+      const result = evaluateCandidate(system.input, c.set, c.adjustment, { catalogue: catalogueOf(c.set), currency });
+      return { ...c, result, energy: energyOf(system.input, { adjustment: c.adjustment, result }, c.purchasePriceCents), error: null as string | null };
     } catch (e) {
-      return { ...c, result: null, error: e instanceof Error ? e.message : String(e) };
+      return { ...c, result: null, energy: null as CandidateEnergy | null, error: e instanceof Error ? e.message : String(e) };
     }
   });
   return { system, evaluation, systemError, candidates: evaluated, flowMax };
+}
+
+/** Duty-cycle energy and life-cycle cost of an evaluated candidate (app/lib/projects/energy.ts). */
+function energyOf(input: SystemInput, c: Parameters<typeof candidateEnergy>[3], priceCents: number | null): CandidateEnergy | null {
+  try {
+    return candidateEnergy(input, systemSpec(input), fluidOf(input).density, c, priceCents);
+  } catch {
+    return null; // inputs the engine refuses: the candidate's own error already says why
+  }
+}
+
+/** Sets or clears a candidate's purchase price (integer cents; null clears). */
+export async function setCandidatePrice(viewer: Viewer, candidateId: number, cents: number | null) {
+  const c = await ownCandidate(viewer, candidateId);
+  await db().update(candidates).set({ purchasePriceCents: cents }).where(eq(candidates.id, c.id));
 }
 
 /** What the model publishes (for the verdict's catalogue rule). */
@@ -285,144 +305,7 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
   ratedSpeed: s.ratedSpeed ?? null,
 });
 
-// ── Duty-point search ───────────────────────────────────────────────────────────────────────
-export type SearchFilters = {
-  type?: string;
-  speed?: number;
-  size?: string;
-  maxPowerW?: number;
-  methods?: ("direct" | "trim" | "speed")[];
-  /** Offer pumps whose verdict is outside-catalogue too (trim or speed beyond what the model publishes). */
-  allowBeyondCatalogue?: boolean;
-};
-
-/** Same model, speed, impeller and points: one distinct curve, however many libraries reach it. */
-function curveKey(s: LibraryCurveSet): string {
-  const pts = s.points.map((p) => [p.flow, p.head, p.efficiency, p.power, p.npshr].map((x) => (x == null ? "" : x.toPrecision(9))).join(":")).join("|");
-  return `${s.model.trim().toLowerCase()}#${s.speed ?? ""}#${s.impellerDiameter ?? ""}#${pts}`;
-}
-
-/** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
-const SEARCH_EVALUATED = 80;
-const SEARCH_SHOWN = 50;
-
-/**
- * Every curve set open to the viewer, ranked against the system's duty (locked libraries listed,
- * never searched). One row per distinct curve (the libraries that carry it named); each row has
- * the verdict of the pump as offered on the system's band; outside-catalogue rows only on request.
- */
-export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
-  const system = await getSystem(viewer, systemId);
-  const { open, locked } = await searchableRevisions(viewer);
-  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
-  let evaluation: ReturnType<typeof evaluateSystem>;
-  try {
-    evaluation = evaluateSystem(system.input);
-  } catch (e) {
-    // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
-    // user's to fix, not a server fault: the page says why.
-    return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
-  }
-  const dutyHead = system.input.duty.head;
-  const sets: (LibraryCurveSet & { libraryId: number; library: string })[] = [];
-  for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) sets.push({ ...s, libraryId: o.libraryId, library: o.name });
-  const filtered = sets.filter(
-    (s) =>
-      (!filters.type || s.type.toLowerCase().includes(filters.type.toLowerCase())) &&
-      (!filters.size || s.nominalSize.toLowerCase().includes(filters.size.toLowerCase())) &&
-      (!filters.speed || (s.speed != null && Math.abs(s.speed - filters.speed) / filters.speed < 0.1)),
-  );
-  const engineSets: EngineCurveSet[] = filtered.map((s) => ({
-    id: String(s.id),
-    label: s.model,
-    curve: {
-      points: toPumpPoints(s.points),
-      speed: s.speed ?? undefined,
-      impellerDiameter: s.impellerDiameter ?? undefined,
-      riseTolerance: 1,
-    },
-  }));
-  const npshaAtDuty = evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - system.input.duty!.flow) < Math.abs(best.flow - system.input.duty!.flow) ? p : best), evaluation.npsha[0]);
-  const res = searchDuty(prepareSearchIndex(engineSets), { flow: system.input.duty.flow, head: dutyHead }, {
-    methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
-    npshAvailable: npshaAtDuty?.y,
-    requiredNpshMargin: system.input.npshMargin,
-    density: evaluation.fluid.density,
-    minSpeedRatio: 0.3,
-    limit: SEARCH_EVALUATED * 2,
-  });
-  const byId = new Map(filtered.map((s) => [String(s.id), s]));
-  // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
-  const groups = new Map<string, { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[] }>();
-  let duplicates = 0;
-  for (const c of res.candidates) {
-    if (filters.maxPowerW && c.shaftPower != null && c.shaftPower > filters.maxPowerW) continue;
-    const s = byId.get(c.id)!;
-    const key = curveKey(s);
-    const g = groups.get(key);
-    if (!g) {
-      groups.set(key, { row: c, set: s, libraries: [s.library] });
-      continue;
-    }
-    duplicates++;
-    if (!g.libraries.includes(s.library)) g.libraries.push(s.library);
-    const mine = (x: typeof s) => libraryOwnedBy(x.libraryId, viewer);
-    if (Math.abs(c.score - g.row.score) < 1e-12 && (await mine(s)) && !(await mine(g.set))) { g.row = c; g.set = s; }
-  }
-  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
-  let outsideCatalogue = 0;
-  const kept: { row: EngineCandidate; set: (typeof sets)[number]; libraries: string[]; verdict: Verdict | null }[] = [];
-  for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
-    let verdict: Verdict | null;
-    try {
-      const adj = { ...DEFAULT_ADJUSTMENT, method: g.row.method === "direct" ? "none" : g.row.method } as Adjustment;
-      verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
-    } catch {
-      verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
-    }
-    if (verdict?.status === "outside-catalogue") {
-      outsideCatalogue++;
-      if (!filters.allowBeyondCatalogue) continue;
-    }
-    kept.push({ ...g, verdict });
-  }
-  // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
-  kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
-  const shown = kept.slice(0, SEARCH_SHOWN);
-  const notes = shown.map((k, i) => {
-    if (i === 0 || verdictClass(k.verdict) === verdictClass(shown[i - 1].verdict)) return null;
-    const above = shown[i - 1].verdict;
-    return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
-  });
-  explainRanks(shown.map((k) => k.row), kept.length, system.input.npshMargin, notes);
-  const results = shown.map(({ row: c, set: s, libraries, verdict }) => ({
-    ...c,
-    curveSetId: s.id,
-    model: s.model,
-    type: s.type,
-    size: s.nominalSize,
-    setSpeed: s.speed,
-    setDiameter: s.impellerDiameter,
-    library: s.library,
-    alsoIn: libraries.filter((l) => l !== s.library),
-    verdict,
-  }));
-  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
-}
-
-const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
-const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
-
-const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
-async function libraryOwnedBy(libraryId: number, viewer: Viewer): Promise<boolean> {
-  let m = ownLibraryCache.get(viewer);
-  if (!m) ownLibraryCache.set(viewer, (m = new Map()));
-  if (!m.has(libraryId)) {
-    const [row] = await db().select({ ws: libraries.workspaceId }).from(libraries).where(eq(libraries.id, libraryId));
-    m.set(libraryId, row?.ws === viewer.workspace.id);
-  }
-  return m.get(libraryId)!;
-}
+// ── Duty-point search: app/lib/projects/search.server.ts ───────────────────────────────────
 
 // ── Selections ──────────────────────────────────────────────────────────────────────────────
 export const SELECTION_FORMAT = "dutymark-selection/1";
@@ -459,6 +342,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
     },
     adjustment: cand.adjustment,
     result: cand.result,
+    energy: cand.energy,
     flowMax: bench.flowMax,
   };
   const [{ id }] = await db()
@@ -487,6 +371,8 @@ export type FrozenSelection = {
   pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
   adjustment: Adjustment;
   result: ReturnType<typeof evaluateCandidate>;
+  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
+  energy?: CandidateEnergy | null;
   flowMax: number;
 };
 

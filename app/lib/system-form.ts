@@ -2,6 +2,7 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { energyField, readEnergyForm } from "./projects/energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 export type UnitSystem = "SI" | "US";
@@ -142,6 +143,7 @@ export function readSystemForm(f: FormLike, sys: UnitSystem): { input: SystemInp
       minus: (readNumber(f, "tolMinus", errors, { label: "the flow tolerance below the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.minus * 100) / 100,
       plus: (readNumber(f, "tolPlus", errors, { label: "the flow tolerance above the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.plus * 100) / 100,
     },
+    energy: readEnergyForm(f, errors),
   };
   const r = v.safeParse(SystemInputSchema, raw);
   if (!r.success) {
@@ -164,6 +166,7 @@ function fieldFor(path: unknown[]): string {
   if (a === "fluid") return b === "dynamicViscosity" ? "viscosity" : String(b);
   if (a === "temperatureC") return "temperature";
   if (a === "flowTolerance") return b === "minus" ? "tolMinus" : "tolPlus";
+  if (a === "energy") return energyField(path.slice(1));
   return String(a ?? "_form");
 }
 

@@ -2,7 +2,8 @@
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
 // services it calls (getSystem → 404 for another workspace's system).
 import { curvesOfRevisions, searchableRevisions, type Viewer } from "./libraries.server";
-import { searchForSystem, systemWorkbench, type SearchFilters } from "./projects.server";
+import { systemWorkbench } from "./projects.server";
+import { searchForSystem, type SearchFilters } from "./projects/search.server";
 import { workbenchView } from "./workbench-view";
 import { searchResultView, type SearchResultIn } from "./search-view";
 

@@ -8,6 +8,7 @@ import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } 
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
+import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/workbench-view";
 import { resultFlowMax } from "~/lib/hydraulics";
 
@@ -32,7 +33,7 @@ export default function SelectionReport() {
     systemError: null,
     // The selected pump's own range (frozen curve and operating point) with the duty: never another candidate's.
     flowMax: resultFlowMax(input, f.result),
-    candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null }],
+    candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null, energy: f.energy ?? null }],
   };
   return (
     <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">
@@ -144,6 +145,8 @@ export default function SelectionReport() {
         <h2 className="font-semibold">Figures at the operating point</h2>
         <CandidateTable view={view} unitSystem={sys} />
       </section>
+
+      <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={f.result.figures?.motor?.currency ?? ""} />
 
       <section className="panel break-inside-avoid">
         <h2 className="font-semibold">Pipe runs</h2>

@@ -4,15 +4,19 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation } from "rea
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, systemWorkbench } from "~/lib/projects.server";
+import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects.server";
+import { DEFAULT_ENERGY_SETTINGS, readPriceCents } from "~/lib/projects/energy";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { workspaceCurrency } from "~/lib/workspaces";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { AdjustmentSchema } from "~/lib/hydraulics";
-import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, PIPE_TABLE_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
+import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
+import { PipePicker } from "~/components/system-editor/PipePicker";
+import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
+import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { fromSI, IE_CLASSES, toSI } from "~/engine";
 
@@ -76,6 +80,13 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (!adj.success) return { errors: { [`adj.${candidateId}`]: adj.issues.map((i) => i.message).join("; ") }, notice: null };
       await adjustCandidate(viewer, candidateId, adj.output);
       return { errors: {}, notice: "Candidate adjusted." };
+    }
+    case "price": {
+      const candidateId = formId(form, "candidateId");
+      const cents = readPriceCents(form.get("purchasePrice"));
+      if (cents === undefined) return { errors: { [`price.${candidateId}`]: "The purchase price is a number ≥ 0 (blank clears it)." }, notice: null };
+      await setCandidatePrice(viewer, candidateId, cents);
+      return { errors: {}, notice: cents === null ? "Purchase price cleared." : "Purchase price set." };
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
@@ -205,6 +216,7 @@ export default function SystemPage() {
               ) : null}
             </section>
 
+            <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} />
             <section className="panel space-y-3">
               <h2 className="font-semibold">Pipe runs</h2>
               <input type="hidden" name="runCount" value={f.runs.length} />
@@ -224,34 +236,8 @@ export default function SystemPage() {
                         <option value="discharge">discharge</option>
                       </select>
                     </div>
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.table`}>
-                        Pipe
-                      </label>
-                      <select id={`f-run.${i}.table`} name={`run.${i}.table`} defaultValue={r.table} className="field">
-                        <option value="">typed inner diameter</option>
-                        {PIPE_TABLE_OPTIONS.map((t) => (
-                          <option key={t.id} value={t.id}>
-                            {t.name}
-                          </option>
-                        ))}
-                      </select>
-                    </div>
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.nominal`}>
-                        Nominal size
-                      </label>
-                      <select id={`f-run.${i}.nominal`} name={`run.${i}.nominal`} defaultValue={r.nominal} className="field">
-                        <option value="">—</option>
-                        {(PIPE_TABLE_OPTIONS.find((t) => t.id === (draftInput.runs?.[i]?.pipeTable || r.table))?.sizes ?? PIPE_TABLE_OPTIONS[0].sizes).map((s) => (
-                          <option key={s} value={s}>
-                            {s}
-                          </option>
-                        ))}
-                      </select>
-                      {errors[`run.${i}.nominal`] ? <p className="text-xs text-fail">{errors[`run.${i}.nominal`]}</p> : null}
-                    </div>
-                    <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? `From the table: ${r.diameterShown}` : undefined} />
+                    <PipePicker index={i} table={r.table} nominal={r.nominal} unitSystem={d.unitSystem} error={errors[`run.${i}.nominal`]} />
+                    <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
                     <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
                     <div>
                       <label className="label" htmlFor={`f-run.${i}.material`}>
@@ -357,6 +343,7 @@ export default function SystemPage() {
               />
             )}
           </section>
+          <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
           {d.canWrite ? (
             <div className="no-print flex gap-2">
               <Form method="post">

@@ -1,0 +1,131 @@
+// Each candidate over the system's duty cycle (operating point, speed, efficiencies, electrical input
+// and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
+import { Form } from "react-router";
+import type { CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
+import { LifeCycleChart } from "~/components/LifeCycleChart";
+
+type Cand = { id: number; label: string; energy?: Energy | null };
+
+export const moneyText = (x: number | null | undefined, currency: string) => (x == null || !Number.isFinite(x) ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
+
+/** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
+export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
+  ["Energy per year over the duty cycle", (c) => (c.energy?.cycle ? `${fmtNum(c.energy.cycle.annualEnergyKWh, 0)} kWh${c.energy.cycle.complete ? "" : " (incomplete)"}` : c.energy?.cycleError ?? "—")],
+  ["Purchase price", (c) => moneyText(c.energy?.purchasePrice, currency)],
+  ["Life-cycle cost (present value)", (c) => (c.energy?.lcc ? `${moneyText(c.energy.lcc.total, currency)} over ${c.energy.lcc.yearly.length} years` : "—")],
+];
+
+export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitSystem; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
+  if (candidates.length === 0) return null;
+  const first = candidates.find((c) => c.energy)?.energy;
+  return (
+    <section className="panel space-y-3" aria-labelledby="energy-h">
+      <h2 id="energy-h" className="font-semibold">
+        Energy over the duty cycle and life-cycle cost
+      </h2>
+      {first ? (
+        <p className="text-xs text-slate-600">
+          Control: {first.controlLabel}. Profile: {first.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {first.profileLabel}.
+        </p>
+      ) : null}
+      {candidates.map((c, i) => (
+        <CandidateCycle key={c.id} c={c} n={i + 1} unitSystem={unitSystem} currency={currency} canWrite={canWrite} error={errors?.[`price.${c.id}`]} />
+      ))}
+      <LifeCycleChart
+        title="Cumulative life-cycle cost (present value) by year"
+        currency={currency}
+        series={candidates.filter((c) => c.energy?.lcc).map((c, i) => ({ id: c.id, label: `${i + 1} ${c.label}`, cumulative: c.energy!.lcc!.cumulative }))}
+      />
+      {first ? (
+        <ul className="list-disc pl-5 text-xs text-slate-600">
+          {first.assumptions.map((a) => (
+            <li key={a}>{a}</li>
+          ))}
+          {first.lcc ? <li>Life-cycle cost: {first.lcc.source}.</li> : null}
+        </ul>
+      ) : null}
+    </section>
+  );
+}
+
+export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitSystem; currency: string; canWrite?: boolean; error?: string }) {
+  const e = c.energy;
+  return (
+    <div className="space-y-1" data-testid={`cycle-${c.id}`}>
+      <h3 className="text-sm font-semibold">
+        <span className="mr-1 inline-block rounded bg-slate-800 px-1 text-xs text-white">{n}</span>
+        {c.label}
+      </h3>
+      {!e ? <p className="text-xs text-slate-600">Not computed.</p> : e.cycleError ? <p className="text-xs text-duty-ink">{e.cycleError}.</p> : null}
+      {e?.cycle ? (
+        <div className="overflow-x-auto">
+          <table className="w-full text-xs" aria-label={`Duty cycle of ${c.label}`}>
+            <thead>
+              <tr className="text-left text-slate-600">
+                {["Flow %", "Flow", "Head", "Speed", "Pump η", "Shaft", "Motor η", "Drive η", "Electrical", "Hours", "Energy"].map((h) => (
+                  <th key={h} className="pr-2 font-normal">
+                    {h}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {e.cycle.steps.map((s, i) => (
+                <tr key={i} className="border-t border-slate-100">
+                  <td className="pr-2">{fmtNum(s.flowFraction * 100, 0)} %</td>
+                  <td className="pr-2">{fmtFlow(unitSystem, s.flow)}</td>
+                  <td className="pr-2">{fmtHead(unitSystem, s.head)}</td>
+                  {s.status === "ok" ? (
+                    <>
+                      <td className="pr-2">{fmtPct(s.speedRatio, 0)}</td>
+                      <td className="pr-2">{fmtPct(s.efficiency)}</td>
+                      <td className="pr-2">{fmtPower(unitSystem, s.shaftPower)}</td>
+                      <td className="pr-2">{fmtPct(s.motorEfficiency)}</td>
+                      <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
+                      <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
+                    </>
+                  ) : (
+                    <td colSpan={6} className="pr-2 text-duty-ink">
+                      ▲ {s.message}
+                    </td>
+                  )}
+                  <td className="pr-2">{fmtNum(s.hours, 0)}</td>
+                  <td className="pr-2">{s.energyKWh == null ? "—" : `${fmtNum(s.energyKWh, 0)} kWh`}</td>
+                </tr>
+              ))}
+              <tr className="border-t border-slate-300 font-semibold">
+                <td colSpan={9} className="pr-2">
+                  Total per year{e.cycle.complete ? "" : " (steps the pump cannot meet are missing)"}
+                </td>
+                <td className="pr-2">{fmtNum(e.cycle.totalHours, 0)}</td>
+                <td className="pr-2" data-testid={`cycle-total-${c.id}`}>
+                  {fmtNum(e.cycle.annualEnergyKWh, 0)} kWh · {moneyText(e.annualCost, currency)}
+                </td>
+              </tr>
+            </tbody>
+          </table>
+        </div>
+      ) : null}
+      {e?.lcc ? (
+        <p className="text-xs" data-testid={`lcc-${c.id}`}>
+          Life-cycle cost over {e.lcc.yearly.length} years: <strong>{moneyText(e.lcc.total, currency)}</strong> = purchase {e.lcc.purchaseGiven ? moneyText(e.lcc.purchase, currency) : "not given (0)"} + energy {moneyText(e.lcc.energyPresentValue, currency)} (present value)
+          {e.cycle && !e.cycle.complete ? " — understated: part of the cycle is missing" : ""}.
+        </p>
+      ) : null}
+      {canWrite ? (
+        <Form method="post" className="no-print flex items-end gap-2">
+          <input type="hidden" name="candidateId" value={c.id} />
+          <label className="text-xs">
+            Purchase price ({currency || "currency"})
+            <input name="purchasePrice" inputMode="decimal" className="field w-32 py-0.5" defaultValue={e?.purchasePrice != null ? String(e.purchasePrice) : ""} placeholder="optional" />
+          </label>
+          <button className="btn-quiet text-xs" name="intent" value="price">
+            Set price
+          </button>
+          {error ? <span className="text-xs text-fail">{error}</span> : null}
+        </Form>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,35 @@
+// The selection report's duty cycle and life-cycle cost (as frozen with the selection).
+import type { CandidateEnergy } from "~/lib/projects/energy";
+import { CandidateCycle } from "~/components/CandidateEnergy";
+import { LifeCycleChart } from "~/components/LifeCycleChart";
+import type { UnitSystem } from "~/components/units";
+
+export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitSystem; currency: string }) {
+  const e = c.energy;
+  if (!e) return null; // selections frozen before load profiles have none
+  return (
+    <section className="panel break-inside-avoid space-y-2" aria-labelledby="sel-energy-h">
+      <h2 id="sel-energy-h" className="font-semibold">
+        Energy over the duty cycle and life-cycle cost
+      </h2>
+      <p className="text-xs text-slate-600">
+        Control: {e.controlLabel}. Profile: {e.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {e.profileLabel}.
+      </p>
+      {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
+      <p className="hidden text-xs print:block">
+        {e.cycle ? `${Math.round(e.cycle.annualEnergyKWh)} kWh per year over ${e.cycle.steps.length} steps${e.cycle.complete ? "" : " (incomplete)"}` : e.cycleError}
+        {e.lcc ? `; life-cycle cost over ${e.lcc.yearly.length} years ${Math.round(e.lcc.total)} ${currency} (present value; ${e.lcc.source})` : ""}.
+      </p>
+      <div className="no-print space-y-2">
+        <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
+        {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: c.label, cumulative: e.lcc.cumulative }]} /> : null}
+        <ul className="list-disc pl-5 text-xs text-slate-600">
+          {e.assumptions.map((a) => (
+            <li key={a}>{a}</li>
+          ))}
+          {e.lcc ? <li>Life-cycle cost: {e.lcc.source}.</li> : null}
+        </ul>
+      </div>
+    </section>
+  );
+}

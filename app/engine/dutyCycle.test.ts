@@ -1,0 +1,132 @@
+import { describe, expect, it } from "vitest";
+import { createPumpCurve, defaultCirculatorProfile, dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
+
+// A made-up pump (not any vendor's): knots every 5 m³/h, H = 20 − 0.02·Q² (Q in m³/h), shaft power given
+// at the knots (W, at 1000 kg/m³, the curve's power density). Steps fall on knots, so the monotone cubic
+// returns the knot values exactly and the hand calculation needs no interpolation.
+const M3H = 1 / 3600;
+const curve = createPumpCurve({
+  points: [
+    { flow: 0, head: 20, power: 300 },
+    { flow: 5 * M3H, head: 19.5, power: 450 },
+    { flow: 10 * M3H, head: 18, power: 600 },
+    { flow: 15 * M3H, head: 15.5, power: 720 },
+    { flow: 20 * M3H, head: 12, power: 800 },
+  ],
+  powerDensity: 1000,
+});
+const qd = 10 * M3H;
+// Closed loop through the design point: H = 18 m × (Q / 10 m³/h)² (no static head).
+const systemHead = (q: number) => 18 * (q / qd) ** 2;
+const base: DutyCycleInput = {
+  curve,
+  systemHead,
+  designFlow: qd,
+  mode: "fixed-speed",
+  profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }],
+  density: 1000,
+  motor: { rating: 750, efficiency: 0.8 },
+  driveEfficiency: null,
+};
+
+describe("duty-cycle energy against a hand calculation", () => {
+  it("fixed speed, throttled: the pump stays on its curve", () => {
+    // Hand calculation (relations: P_el = P_shaft / (η_m · η_d), E = P_el · h; motor part-load factor 1 at ≥ 50 % load,
+    // the module's stated common-practice assumption):
+    //  100 %: Q 10 m³/h, P_shaft 600 W (curve), load 600/750 = 0.8 → η_m = 0.8 → P_el 750 W × 1000 h = 750 kWh
+    //   50 %: Q  5 m³/h, P_shaft 450 W (curve), load 0.6 → η_m = 0.8 → P_el 562.5 W × 3000 h = 1687.5 kWh
+    //  total 2437.5 kWh per year
+    const r = dutyCycleEnergy(base);
+    expect(r.steps.map((s) => s.status)).toEqual(["ok", "ok"]);
+    expect(r.steps[0].head).toBeCloseTo(18, 9);
+    expect(r.steps[1].head).toBeCloseTo(19.5, 9); // throttled: the pump's own head at 5 m³/h
+    expect(r.steps[0].energyKWh).toBeCloseTo(750, 6);
+    expect(r.steps[1].energyKWh).toBeCloseTo(1687.5, 6);
+    expect(r.annualEnergyKWh).toBeCloseTo(2437.5, 6);
+    expect(r.complete).toBe(true);
+  });
+
+  it("VFD following the system curve: affinity laws, P ∝ N³, with motor and drive part-load losses", () => {
+    // The system parabola H = 18·(Q/Qd)² is also the affinity parabola through the design point, so at
+    // 50 % flow the speed is 50 % and the full-speed point is the design knot (affinity laws, Q ∝ N, H ∝ N², P ∝ N³):
+    //  100 %: N = 1, P_shaft 600 W, load 0.8: η_m = 0.8 × 1 = 0.8; η_d = 0.97 × (0.995 + 0.005 × (0.8 − 0.75)/0.25) = 0.97 × 0.996 = 0.96612
+    //         P_el = 600 / (0.8 × 0.96612) = 776.3011 W → × 1000 h = 776.3011 kWh
+    //   50 %: N = 0.5, P_shaft = 600 × 0.5³ = 75 W, load 0.1: η_m = 0.8 × 0.80 = 0.64; η_d = 0.97 × 0.88 = 0.8536
+    //         P_el = 75 / (0.64 × 0.8536) = 137.2862 W → × 3000 h = 411.8586 kWh
+    //  total 1188.1597 kWh per year (part-load factors: the module's common-practice assumption)
+    const r = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97 });
+    expect(r.steps[0].speedRatio).toBeCloseTo(1, 6);
+    expect(r.steps[1].speedRatio).toBeCloseTo(0.5, 6);
+    expect(r.steps[1].shaftPower).toBeCloseTo(75, 3);
+    expect(r.steps[0].driveEfficiency).toBeCloseTo(0.96612, 9);
+    expect(r.steps[1].motorEfficiency).toBeCloseTo(0.64, 6);
+    expect(r.steps[0].energyKWh).toBeCloseTo(776.3011, 2);
+    expect(r.steps[1].energyKWh).toBeCloseTo(411.8586, 2);
+    expect(r.annualEnergyKWh).toBeCloseTo(1188.1597, 2);
+  });
+
+  it("control curves order the energy: constant pressure ≥ proportional ≥ system curve (same pump, same profile)", () => {
+    const e = (mode: DutyCycleInput["mode"]) => dutyCycleEnergy({ ...base, mode, driveEfficiency: 0.97 });
+    const cp = e("constant-pressure"), pp = e("proportional-pressure"), sc = e("system-curve");
+    expect(cp.setpointHead).toBeCloseTo(18, 9);
+    // proportional pressure at 50 % flow: H = 18 × (0.5 + 0.5 × 0.5) = 13.5 m (common-practice curve)
+    expect(pp.steps[1].head).toBeCloseTo(13.5, 9);
+    expect(cp.steps[1].head).toBeCloseTo(18, 9);
+    expect(cp.annualEnergyKWh).toBeGreaterThan(pp.annualEnergyKWh);
+    expect(pp.annualEnergyKWh).toBeGreaterThan(sc.annualEnergyKWh);
+  });
+});
+
+describe("duty-cycle edges", () => {
+  it("a step beyond the pump's curve end is not computed and the total says it is incomplete", () => {
+    // 150 % of 10 m³/h = 15 m³/h: the system needs 18 × 1.5² = 40.5 m, the pump gives 15.5 m.
+    const r = dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 1.5, hours: 100 }] });
+    expect(r.steps[1].status).toBe("beyond-curve");
+    expect(r.steps[1].energyKWh).toBeNull();
+    expect(r.complete).toBe(false);
+    expect(r.annualEnergyKWh).toBeCloseTo(750, 6); // only the 100 % step (hand calculation above)
+    expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
+    // With the VFD the same step needs more than full speed.
+    const v = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97, profile: [{ flowFraction: 1.5, hours: 100 }] });
+    expect(v.steps[0].status).toBe("beyond-curve");
+    // A fixed-speed flow past the last published point (20 m³/h) in an open system with a low curve.
+    const open = dutyCycleEnergy({ ...base, systemHead: () => 1, profile: [{ flowFraction: 1.5, hours: 10 }, { flowFraction: 1, hours: 10 }] });
+    expect(open.steps[0].status).toBe("ok"); // 15 m³/h is on the curve
+    const past = dutyCycleEnergy({ ...base, designFlow: 16 * M3H, systemHead: () => 1, profile: [{ flowFraction: 1.5, hours: 10 }] });
+    expect(past.steps[0].status).toBe("beyond-curve"); // 24 m³/h > 20 m³/h, the curve's end
+  });
+  it("a step needing less than the lowest speed runs at the lowest speed, throttled (common practice)", () => {
+    // System curve, 50 % flow needs 50 % speed; with a 60 % lowest speed the pump is held at 60 %.
+    const r = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97, minSpeedRatio: 0.6 });
+    expect(r.steps[1].status).toBe("ok");
+    expect(r.steps[1].speedRatio).toBe(0.6);
+    expect(r.steps[1].message).toMatch(/lowest speed 60 %/);
+    // Head on the 60 % curve at 5 m³/h: 0.36 × H(5/0.6 m³/h) > the system's 4.5 m (affinity laws).
+    expect(r.steps[1].head!).toBeGreaterThan(4.5);
+    expect(r.steps[1].shaftPower!).toBeGreaterThan(75); // more than the ideal 600 × 0.5³ W
+  });
+  it("zero hours: the point is computed, its energy is zero, and a zero-hour step the pump cannot meet leaves the total complete", () => {
+    const r = dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 0 }, { flowFraction: 1.5, hours: 0 }] });
+    expect(r.steps[0].status).toBe("ok");
+    expect(r.steps[0].energyKWh).toBe(0);
+    expect(r.annualEnergyKWh).toBe(0);
+    expect(r.complete).toBe(true);
+  });
+  it("fractions above 1 are computed up to 150 %; above that, at or below 0, NaN or Infinity are refused", () => {
+    const r = dutyCycleEnergy({ ...base, systemHead: (q) => 15.5 * (q / (15 * M3H)) ** 2, profile: [{ flowFraction: 1.5, hours: 10 }] });
+    expect(r.steps[0].status).toBe("ok");
+    expect(r.steps[0].shaftPower).toBeCloseTo(720, 6); // the 15 m³/h knot
+    for (const f of [1.6, 0, -0.5, NaN, Infinity]) expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: f, hours: 10 }] })).toThrow(EngineInputError);
+    expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 0.5, hours: NaN }] })).toThrow(EngineInputError);
+  });
+  it("an empty profile, a year of more than 8784 h, and an unknown mode are refused", () => {
+    expect(() => dutyCycleEnergy({ ...base, profile: [] })).toThrow(/empty/);
+    expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 5000 }, { flowFraction: 0.5, hours: 4000 }] })).toThrow(/8784/);
+    expect(() => dutyCycleEnergy({ ...base, mode: "throttle" as never })).toThrow(EngineInputError);
+  });
+  it("the common-practice circulator profile spreads the year's hours 6/15/35/44 % over 100/75/50/25 % flow (EN 16297-1, from memory)", () => {
+    const p = defaultCirculatorProfile(5000);
+    expect(p).toEqual([{ flowFraction: 1, hours: 300 }, { flowFraction: 0.75, hours: 750 }, { flowFraction: 0.5, hours: 1750 }, { flowFraction: 0.25, hours: 2200 }]);
+    expect(p.reduce((s, x) => s + x.hours, 0)).toBeCloseTo(5000, 9);
+  });
+});

@@ -1,0 +1,59 @@
+// The editor's load-profile, control and life-cycle fields ↔ the system document's `energy` part.
+// Percent in the form, fractions in the document; hours per year as typed. Pure (browser and server).
+import { DEFAULT_ENERGY_SETTINGS, MAX_PROFILE_STEPS, type EnergySettings } from "./energy";
+
+type FormLike = { get(name: string): FormDataEntryValue | null };
+
+function read(f: FormLike, key: string, errors: Record<string, string>, label: string): number | null {
+  const raw = (f.get(key) ?? "").toString().trim().replace(",", ".");
+  if (raw === "") return null;
+  const n = Number(raw);
+  if (!Number.isFinite(n)) {
+    errors[key] = `${label} must be a number.`;
+    return null;
+  }
+  return n;
+}
+
+/**
+ * Reads the energy fields. A form without them (an older page, a script) keeps the stored settings
+ * (`current`), else the defaults. Ranges are checked by the schema (EnergySettingsSchema).
+ */
+export function readEnergyForm(f: FormLike, errors: Record<string, string>, current?: EnergySettings): EnergySettings {
+  const base = current ?? DEFAULT_ENERGY_SETTINGS;
+  if (f.get("energy.control") == null) return { ...base };
+  const control = String(f.get("energy.control")) as EnergySettings["control"];
+  let profile: EnergySettings["profile"] = null;
+  if (f.get("energy.profileKind") === "user") {
+    profile = [];
+    for (let i = 0; i < MAX_PROFILE_STEPS; i++) {
+      const pct = read(f, `energy.step.${i}.pct`, errors, "Flow");
+      const hours = read(f, `energy.step.${i}.hours`, errors, "Hours");
+      if (pct == null && hours == null) continue;
+      if (pct == null || hours == null) {
+        errors[`energy.step.${i}.${pct == null ? "pct" : "hours"}`] = "Give both the flow (%) and the hours of this step, or neither.";
+        continue;
+      }
+      profile.push({ flowFraction: pct / 100, hours });
+    }
+  }
+  const pct = (key: string, label: string, fallback: number) => {
+    const n = read(f, key, errors, label);
+    return n == null ? fallback : n / 100;
+  };
+  return {
+    control,
+    profile,
+    years: read(f, "energy.years", errors, "Years") ?? base.years,
+    escalation: pct("energy.escalation", "Tariff escalation", base.escalation),
+    discountRate: pct("energy.discount", "Discount rate", base.discountRate),
+  };
+}
+
+/** Form field of a schema issue inside `energy` (path after "energy"). */
+export function energyField(path: unknown[]): string {
+  const [b, c, d] = path;
+  if (b === "profile") return typeof c === "number" ? `energy.step.${c}.${d === "hours" ? "hours" : "pct"}` : "energy.profileKind";
+  if (b === "discountRate") return "energy.discount";
+  return `energy.${String(b ?? "control")}`;
+}

@@ -1,0 +1,167 @@
+// Load profile, control mode and life-cycle cost of a system's candidates (issue 17, items 3–4).
+// Pure: the server renders with it, the live preview and the selection report read its output.
+// The engine does the physics (app/engine/dutyCycle.ts, lifeCycleCost.ts); this file picks the
+// inputs out of the system document and the evaluated candidate.
+import * as v from "valibot";
+import {
+  CIRCULATOR_PROFILE_SOURCE,
+  CONTROL_MODES,
+  createPumpCurve,
+  DEFAULT_DRIVE_EFFICIENCY,
+  defaultCirculatorProfile,
+  dutyCycleEnergy,
+  EngineInputError,
+  lifeCycleCost,
+  MAX_FLOW_FRACTION,
+  PART_LOAD_SOURCE,
+  prepareSystem,
+  scaleBySpeed,
+  systemHeadFunction,
+  type ControlMode,
+  type DutyCycleResult,
+  type DutyStep,
+  type LifeCycleResult,
+} from "~/engine";
+
+const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
+const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
+
+export const MAX_PROFILE_STEPS = 8;
+
+export const DutyStepSchema = v.object({
+  flowFraction: v.pipe(num("Flow fraction"), v.gtValue(0, "A step's flow must be above 0 %."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
+  hours: v.pipe(num("Hours"), v.minValue(0, "Hours cannot be negative."), v.maxValue(8784, "A year has at most 8784 hours.")),
+});
+
+export const EnergySettingsSchema = v.pipe(
+  v.object({
+    control: v.picklist(CONTROL_IDS, "Unknown control mode."),
+    /** Null: the common-practice circulator profile over the system's operating hours. */
+    profile: v.nullable(v.pipe(v.array(DutyStepSchema), v.minLength(1, "Give at least one step, or use the common-practice profile."), v.maxLength(MAX_PROFILE_STEPS, `At most ${MAX_PROFILE_STEPS} steps.`))),
+    /** Life-cycle cost: years, tariff escalation and discount rate per year (fractions). */
+    years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(1, "At least 1 year."), v.maxValue(50, "At most 50 years.")),
+    escalation: v.pipe(num("Tariff escalation"), v.minValue(-0.5, "Escalation at least −50 % a year."), v.maxValue(1, "Escalation at most 100 % a year.")),
+    discountRate: v.pipe(num("Discount rate"), v.minValue(0, "Discount rate at least 0 %."), v.maxValue(1, "Discount rate at most 100 % a year.")),
+  }),
+  v.check((s) => !s.profile || s.profile.reduce((t, x) => t + x.hours, 0) <= 8784, "The steps add up to more than a year (8784 h)."),
+);
+export type EnergySettings = v.InferOutput<typeof EnergySettingsSchema>;
+
+/** Example values, to be set per project: 15 years, tariff +3 %/year, discount 5 %/year (common practice orders of magnitude). */
+export const DEFAULT_ENERGY_SETTINGS: EnergySettings = { control: "fixed-speed", profile: null, years: 15, escalation: 0.03, discountRate: 0.05 };
+
+type InputLike = {
+  hoursPerYear: number;
+  tariffPerKWh: number;
+  duty: { flow: number; head: number } | null;
+  energy?: EnergySettings;
+};
+
+/** The profile in use, with where it comes from. */
+export function profileOf(input: InputLike): { steps: DutyStep[]; source: "user" | "common-practice"; label: string } {
+  const s = input.energy ?? DEFAULT_ENERGY_SETTINGS;
+  if (s.profile) return { steps: s.profile, source: "user", label: "Load profile given for this system" };
+  return { steps: defaultCirculatorProfile(input.hoursPerYear), source: "common-practice", label: `${CIRCULATOR_PROFILE_SOURCE}, over the system's ${input.hoursPerYear} operating hours` };
+}
+
+export type CandidateEnergy = {
+  control: ControlMode;
+  controlLabel: string;
+  profileSource: "user" | "common-practice";
+  profileLabel: string;
+  cycle: DutyCycleResult | null;
+  /** Why the cycle could not be computed (no duty, no motor, bad curve…). */
+  cycleError: string | null;
+  /** Energy cost per year over the cycle (currency). */
+  annualCost: number | null;
+  purchasePrice: number | null;
+  lcc: LifeCycleResult | null;
+  assumptions: string[];
+};
+
+type EvaluatedLike = {
+  adjustment: { method: "none" | "speed" | "trim"; arrangement: "single" | "parallel" | "series"; dutyPumps: number };
+  result: {
+    ratio: number;
+    curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
+    operating: { flow: number; head: number } | null;
+    figures: { motor: { rating: number | null; efficiency: number | null } } | null;
+  } | null;
+};
+
+/**
+ * Energy over the system's duty cycle and the life-cycle cost of one evaluated candidate.
+ * @param systemSpec the engine's system (for its head at each flow), from hydraulics' `systemSpec(input)`
+ * @param density fluid density, kg/m³
+ * @param purchasePriceCents the candidate's purchase price in cents (null: not given)
+ */
+export function candidateEnergy(
+  input: InputLike,
+  systemSpec: Parameters<typeof prepareSystem>[0],
+  density: number,
+  c: EvaluatedLike,
+  purchasePriceCents: number | null,
+): CandidateEnergy {
+  const s = input.energy ?? DEFAULT_ENERGY_SETTINGS;
+  const mode = CONTROL_MODES.find((m) => m.id === s.control) ?? CONTROL_MODES[0];
+  const prof = profileOf(input);
+  const purchasePrice = purchasePriceCents == null ? null : purchasePriceCents / 100;
+  const out: CandidateEnergy = {
+    control: mode.id,
+    controlLabel: `${mode.label}: ${mode.relation} (${mode.source})`,
+    profileSource: prof.source,
+    profileLabel: prof.label,
+    cycle: null,
+    cycleError: null,
+    annualCost: null,
+    purchasePrice,
+    lcc: null,
+    assumptions: [
+      "Affinity laws for speed (Q ∝ N, H ∝ N², P ∝ N³; pump efficiency constant along the affinity parabola).",
+      `Motor and drive losses at part load: ${PART_LOAD_SOURCE}.`,
+      `Drive rated efficiency ${(DEFAULT_DRIVE_EFFICIENCY * 100).toFixed(0)} % (common practice, from memory) wherever a drive runs.`,
+    ],
+  };
+  const r = c.result;
+  const rating = r?.figures?.motor.rating ?? null;
+  const etaM = r?.figures?.motor.efficiency ?? null;
+  const designFlow = input.duty?.flow ?? r?.operating?.flow ?? null;
+  if (!r || !r.operating) out.cycleError = "no operating point on the system: no duty cycle";
+  else if (rating == null || etaM == null) out.cycleError = "no motor rating or efficiency: no duty cycle";
+  else if (designFlow == null) out.cycleError = "no duty flow: no duty cycle";
+  else {
+    try {
+      let curve = createPumpCurve({
+        points: r.curve.map((p) => {
+          const o: { flow: number; head: number; efficiency?: number; power?: number } = { flow: p.flow, head: p.head };
+          if (p.efficiency != null) o.efficiency = p.efficiency;
+          if (p.power != null) o.power = p.power;
+          return o;
+        }),
+        powerDensity: density,
+        riseTolerance: 1,
+      });
+      // A VFD may run up to the pump's full speed: undo a speed setting of the candidate (affinity laws).
+      if (mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1) curve = scaleBySpeed(curve, 1 / r.ratio).curve;
+      const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
+      const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
+      const sysHead = systemHeadFunction(prepareSystem(systemSpec));
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM }, driveEfficiency: drive });
+      out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
+      out.lcc = lifeCycleCost({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
+    } catch (e) {
+      if (!(e instanceof EngineInputError)) throw e;
+      out.cycleError = e.message;
+    }
+  }
+  return out;
+}
+
+/** A typed purchase price → integer cents; null for blank (clears); undefined when not a number ≥ 0 (or absurd). */
+export function readPriceCents(raw: FormDataEntryValue | null): number | null | undefined {
+  const t = (raw ?? "").toString().trim().replace(/[\s\u00a0]/g, "").replace(",", ".");
+  if (t === "") return null;
+  const n = Number(t);
+  if (!Number.isFinite(n) || n < 0 || n > 1e12) return undefined;
+  return Math.round(n * 100);
+}

@@ -1,0 +1,234 @@
+// Duty-point search of a system over every curve set open to the viewer.
+//
+// Speed at catalogue scale: library revisions never change once written, so the engine's prepared
+// search index over a given list of revisions (and filter) is built once per app process and kept
+// (a small LRU). Each request then only runs `searchDuty`, groups the best rows, judges at most
+// SEARCH_EVALUATED of them and serialises the SEARCH_SHOWN it shows. A new revision is a new key,
+// so an import is seen at once; any other process builds the same index from the database.
+import { eq } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { libraries } from "@db/schema";
+import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
+import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, toPumpPoints, type Adjustment, type SystemInput } from "../hydraulics";
+import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries.server";
+import { catalogueOf, getSystem } from "../projects.server";
+
+export type SearchFilters = {
+  type?: string;
+  speed?: number;
+  size?: string;
+  maxPowerW?: number;
+  methods?: ("direct" | "trim" | "speed")[];
+  /** Offer pumps whose verdict is outside-catalogue too (trim or speed beyond what the model publishes). */
+  allowBeyondCatalogue?: boolean;
+};
+
+/** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
+export const SEARCH_EVALUATED = 80;
+export const SEARCH_SHOWN = 50;
+
+type OpenRevision = { libraryId: number; name: string; revisionId: number };
+/** A curve set with the revision it came from (library name read per request: names may change, revisions do not). */
+type IndexedSet = LibraryCurveSet & { revisionId: number; libraryId: number };
+
+/** The engine's view of a stored curve set (the same for the cached and the uncached path). */
+export function toEngineSet(s: LibraryCurveSet): EngineCurveSet {
+  return {
+    id: String(s.id),
+    label: s.model,
+    curve: { points: toPumpPoints(s.points), speed: s.speed ?? undefined, impellerDiameter: s.impellerDiameter ?? undefined, riseTolerance: 1 },
+  };
+}
+
+/** The filters that choose which sets are indexed (the others act on the ranked rows). */
+function setFilter(filters: SearchFilters) {
+  const type = filters.type?.toLowerCase();
+  const size = filters.size?.toLowerCase();
+  const speed = filters.speed;
+  return (s: LibraryCurveSet) =>
+    (!type || s.type.toLowerCase().includes(type)) &&
+    (!size || s.nominalSize.toLowerCase().includes(size)) &&
+    (!speed || (s.speed != null && Math.abs(s.speed - speed) / speed < 0.1));
+}
+
+export type PreparedSearch = {
+  sets: IndexedSet[];
+  byId: Map<string, IndexedSet>;
+  index: SearchIndex;
+  /** curveKey per set id, filled as rows are grouped. */
+  keys: Map<string, string>;
+};
+
+/** Builds the index over the open revisions' curve sets (the uncached path; also what the cache stores). */
+export async function buildPreparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
+  const keep = setFilter(filters);
+  const sets: IndexedSet[] = [];
+  for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) if (keep(s)) sets.push({ ...s, revisionId: o.revisionId, libraryId: o.libraryId });
+  return { sets, byId: new Map(sets.map((s) => [String(s.id), s])), index: prepareSearchIndex(sets.map(toEngineSet)), keys: new Map() };
+}
+
+/** Prepared indexes per (revisions, set filters): immutable inputs, so never stale; least recently used dropped first. */
+const PREPARED_LIMIT = 8;
+const preparedCache = new Map<string, Promise<PreparedSearch>>();
+
+export function preparedKey(open: readonly OpenRevision[], filters: SearchFilters): string {
+  return JSON.stringify([open.map((o) => o.revisionId), filters.type?.toLowerCase() ?? "", filters.size?.toLowerCase() ?? "", filters.speed ?? 0]);
+}
+
+export async function preparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
+  const key = preparedKey(open, filters);
+  let p = preparedCache.get(key);
+  if (p) {
+    preparedCache.delete(key);
+    preparedCache.set(key, p);
+    return p;
+  }
+  p = buildPreparedSearch(open, filters);
+  p.catch(() => preparedCache.delete(key));
+  preparedCache.set(key, p);
+  while (preparedCache.size > PREPARED_LIMIT) preparedCache.delete(preparedCache.keys().next().value!);
+  return p;
+}
+
+/**
+ * Verdicts per system input: a verdict is a pure function of the system document, the curve set
+ * (immutable) and the method, so repeat views and filter changes of one system reuse them.
+ * Keyed by the stored input JSON; a saved change is a new key. Least recently used dropped first.
+ */
+const VERDICT_SYSTEMS_LIMIT = 32;
+const verdictCache = new Map<string, Map<string, Verdict | null>>();
+function verdictsFor(inputJson: string): Map<string, Verdict | null> {
+  let m = verdictCache.get(inputJson);
+  if (m) verdictCache.delete(inputJson);
+  else m = new Map();
+  verdictCache.set(inputJson, m);
+  while (verdictCache.size > VERDICT_SYSTEMS_LIMIT) verdictCache.delete(verdictCache.keys().next().value!);
+  return m;
+}
+
+/** For tests: how many prepared indexes this process keeps, and a way to drop every cache. */
+export const preparedCacheStats = () => ({ size: preparedCache.size, keys: [...preparedCache.keys()] });
+export const clearSearchCaches = () => { preparedCache.clear(); verdictCache.clear(); };
+
+/** The engine options the page searches with (shared with the benchmark, so both time the same search). */
+export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>, filters: SearchFilters): SearchOptions {
+  const duty = input.duty!;
+  const npshaAtDuty = evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - duty.flow) < Math.abs(best.flow - duty.flow) ? p : best), evaluation.npsha[0]);
+  return {
+    methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
+    npshAvailable: npshaAtDuty?.y,
+    requiredNpshMargin: input.npshMargin,
+    density: evaluation.fluid.density,
+    minSpeedRatio: 0.3,
+    limit: SEARCH_EVALUATED * 2,
+  };
+}
+
+/** Same model, speed, impeller and points: one distinct curve, however many libraries reach it. */
+function curveKey(s: LibraryCurveSet): string {
+  const pts = s.points.map((p) => [p.flow, p.head, p.efficiency, p.power, p.npshr].map((x) => (x == null ? "" : x.toPrecision(9))).join(":")).join("|");
+  return `${s.model.trim().toLowerCase()}#${s.speed ?? ""}#${s.impellerDiameter ?? ""}#${pts}`;
+}
+
+/**
+ * Every curve set open to the viewer, ranked against the system's duty (locked libraries listed,
+ * never searched). One row per distinct curve (the libraries that carry it named); each row has
+ * the verdict of the pump as offered on the system's band; outside-catalogue rows only on request.
+ * `opts.uncached` builds the index afresh (tests compare both paths).
+ */
+export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean } = {}) {
+  const system = await getSystem(viewer, systemId);
+  const { open, locked } = await searchableRevisions(viewer);
+  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
+  let evaluation: ReturnType<typeof evaluateSystem>;
+  try {
+    evaluation = evaluateSystem(system.input);
+  } catch (e) {
+    // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
+    // user's to fix, not a server fault: the page says why.
+    return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
+  }
+  const prepared = opts.uncached ? await buildPreparedSearch(open, filters) : await preparedSearch(open, filters);
+  const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
+  const res = searchDuty(prepared.index, { flow: system.input.duty.flow, head: system.input.duty.head }, searchOptionsFor(system.input, evaluation, filters));
+  // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
+  const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
+  let duplicates = 0;
+  for (const c of res.candidates) {
+    if (filters.maxPowerW && c.shaftPower != null && c.shaftPower > filters.maxPowerW) continue;
+    const s = prepared.byId.get(c.id)!;
+    let key = prepared.keys.get(c.id);
+    if (key === undefined) prepared.keys.set(c.id, (key = curveKey(s)));
+    const lib = libraryName.get(s.revisionId) ?? "";
+    const g = groups.get(key);
+    if (!g) {
+      groups.set(key, { row: c, set: s, libraries: [lib] });
+      continue;
+    }
+    duplicates++;
+    if (!g.libraries.includes(lib)) g.libraries.push(lib);
+    const mine = (x: IndexedSet) => libraryOwnedBy(x.libraryId, viewer);
+    if (Math.abs(c.score - g.row.score) < 1e-12 && (await mine(s)) && !(await mine(g.set))) { g.row = c; g.set = s; }
+  }
+  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
+  let outsideCatalogue = 0;
+  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null }[] = [];
+  const verdicts = opts.uncached ? new Map<string, Verdict | null>() : verdictsFor(JSON.stringify(system.input));
+  for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
+    const method = g.row.method === "direct" ? "none" : g.row.method;
+    const vk = `${g.set.id}#${method}`;
+    let verdict = verdicts.get(vk);
+    if (verdict === undefined) {
+      try {
+        const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
+        verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
+      } catch {
+        verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
+      }
+      verdicts.set(vk, verdict);
+    }
+    if (verdict?.status === "outside-catalogue") {
+      outsideCatalogue++;
+      if (!filters.allowBeyondCatalogue) continue;
+    }
+    kept.push({ ...g, verdict });
+  }
+  // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
+  kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
+  const shown = kept.slice(0, SEARCH_SHOWN);
+  const notes = shown.map((k, i) => {
+    if (i === 0 || verdictClass(k.verdict) === verdictClass(shown[i - 1].verdict)) return null;
+    const above = shown[i - 1].verdict;
+    return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
+  });
+  // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
+  const rows = shown.map((k) => ({ ...k.row }));
+  explainRanks(rows, kept.length, system.input.npshMargin, notes);
+  const results = shown.map(({ set: s, libraries, verdict }, i) => ({
+    ...rows[i],
+    curveSetId: s.id,
+    model: s.model,
+    type: s.type,
+    size: s.nominalSize,
+    setSpeed: s.speed,
+    setDiameter: s.impellerDiameter,
+    library: libraryName.get(s.revisionId) ?? "",
+    alsoIn: libraries.filter((l) => l !== (libraryName.get(s.revisionId) ?? "")),
+    verdict,
+  }));
+  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
+}
+
+const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
+const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
+
+const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
+async function libraryOwnedBy(libraryId: number, viewer: Viewer): Promise<boolean> {
+  let m = ownLibraryCache.get(viewer);
+  if (!m) ownLibraryCache.set(viewer, (m = new Map()));
+  if (!m.has(libraryId)) {
+    const [row] = await db().select({ ws: libraries.workspaceId }).from(libraries).where(eq(libraries.id, libraryId));
+    m.set(libraryId, row?.ws === viewer.workspace.id);
+  }
+  return m.get(libraryId)!;
+}
