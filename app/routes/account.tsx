@@ -7,6 +7,7 @@ import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/auth/api-to
 import { requireMember } from "~/lib/auth/guards.server";
 import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
 
@@ -209,3 +210,5 @@ export default function Account() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "your account", back: { href: "/", label: "The start page" } });

@@ -9,6 +9,7 @@ import { getFieldCheck } from "~/lib/fieldchecks/records.server";
 import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -272,3 +273,5 @@ export default function FieldCheckRecord() {
     </article>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this field check", back: { href: "/field", label: "All field checks" } });

@@ -13,6 +13,7 @@ import { CheckForm } from "~/components/field/CheckForm";
 import { CheckHistoryList, SelectionSummary } from "~/components/field/SelectionSummary";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET /field/selections/:id — the check form (phone first, works offline once opened) and the
 // selection's check history.
@@ -64,3 +65,5 @@ export default function FieldSelection() {
     </article>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this selection's field check form", back: { href: "/field", label: "All field checks" } });

@@ -7,6 +7,7 @@ import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import type { UnitSystem } from "~/components/units";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
 
@@ -86,3 +87,5 @@ export default function FieldHome() {
     </article>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the field checks", back: { href: "/", label: "The start page" } });

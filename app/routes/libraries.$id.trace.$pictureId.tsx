@@ -10,6 +10,7 @@ import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { FormError, Notice } from "~/components/forms";
 import { JsNotice } from "~/components/tracer/JsNotice";
 import { TracerWorkbench } from "~/components/tracer/TracerWorkbench";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -71,3 +72,5 @@ export default function TracePicture({ loaderData: d, actionData }: Route.Compon
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this traced picture", back: { href: "/libraries", label: "All pump libraries" } });

@@ -5,6 +5,7 @@ import { readId } from "~/lib/shared/forms.server";
 import { listPictures, MAX_PICTURE_BYTES } from "~/lib/tracer/pictures.server";
 import { fmtBytes } from "~/components/library-bits";
 import { JsNotice } from "~/components/tracer/JsNotice";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -56,3 +57,5 @@ export default function TraceStart({ loaderData: d }: Route.ComponentProps) {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the curve tracer for this library", back: { href: "/libraries", label: "All pump libraries" } });

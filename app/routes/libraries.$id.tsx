@@ -15,6 +15,7 @@ import { UploadDrop } from "~/components/UploadDrop";
 import { ImportList } from "~/components/ImportList";
 import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -361,3 +362,5 @@ export default function LibraryPage() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this pump library", back: { href: "/libraries", label: "All pump libraries" } });

@@ -18,6 +18,7 @@ import { FormError, Notice } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
@@ -380,3 +381,5 @@ export default function UploadPreview() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this upload and its column mapping", back: { href: "/libraries", label: "All pump libraries" } });

@@ -11,6 +11,7 @@ import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/workbench-view";
 import { resultFlowMax } from "~/lib/hydraulics";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -218,3 +219,5 @@ export default function SelectionReport() {
     </article>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this selection report", back: { href: "/projects", label: "Your projects" } });

@@ -13,6 +13,7 @@ import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/c
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -239,3 +240,5 @@ export default function Search({ actionData }: Route.ComponentProps) {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "the pump search for this system", back: { href: "/projects", label: "Your projects" } });

@@ -19,6 +19,7 @@ import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset"
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { fromSI, IE_CLASSES, toSI } from "~/engine";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
 
@@ -447,3 +448,5 @@ function In({ label, name, def, errors, unit, hint, wide, placeholder }: { label
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this system", back: { href: "/projects", label: "Your projects" } });

@@ -21,6 +21,7 @@ import {
 } from "~/lib/billing/billing.server";
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
+import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -252,3 +253,5 @@ export default function Billing() {
     </div>
   );
 }
+
+export const ErrorBoundary = routeErrorBoundary({ what: "this workspace's plan and billing", back: { href: "/workspace", label: "Your workspace" } });
