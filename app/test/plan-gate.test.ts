@@ -22,6 +22,7 @@ import * as systemApi from "~/routes/api.v1.systems.$id";
 import * as systemSearchApi from "~/routes/api.v1.systems.$id.search";
 import * as selectionPage from "~/routes/selections.$id";
 import * as selectionJson from "~/routes/selections.$id.export-json";
+import { forgetTokens } from "~/lib/auth/token-cache.server";
 
 type Ctx = {
   engineer: TestMember;
@@ -39,7 +40,15 @@ type Ctx = {
 };
 let c: Ctx;
 
-const setPlan = (workspaceId: number, plan: "free" | "network") => db().update(workspaces).set({ plan }).where(eq(workspaces.id, workspaceId));
+/**
+ * The plan written straight to the table, as another app process would see it. In the product a plan
+ * only changes through the Stripe webhook, which clears the verified-token cache; written directly,
+ * this process's cache is cleared by hand, as its TOKEN_CACHE_MS window would (token-cache.server.ts).
+ */
+const setPlan = async (workspaceId: number, plan: "free" | "network") => {
+  await db().update(workspaces).set({ plan }).where(eq(workspaces.id, workspaceId));
+  forgetTokens();
+};
 const viewerFor = (m: TestMember, plan: "free" | "network", ws: { id: number; name: string }): Viewer => ({ userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: "x", plan }, role: m.role });
 const M3H = 1 / 3600;
 

@@ -20,16 +20,18 @@ const MB = 1024 * 1024;
 const EXPECTED: Record<string, number> = {
   "/libraries/7/upload": 25 * MB,
   "/api/v1/libraries/7/upload": 25 * MB,
+  "/libraries/7/trace/upload": 25 * MB, // a datasheet picture for the tracer (20 MB file + framing)
   "/field/selections/7/photos": 12 * MB,
+  "/field/selections/7/checks": 12 * MB, // a check queued on a phone, sent with its photos
   "/api/stripe/webhook": 512 * 1024,
 };
 
-test("every route of app/routes.ts gets its class's limit (uploads 25 MB, photos 12 MB, Stripe webhook 512 KB, else 1 MB)", () => {
+test("every route of app/routes.ts gets its class's limit (uploads 25 MB, photos and queued checks 12 MB, Stripe webhook 512 KB, else 1 MB)", () => {
   expect(ROUTES.length).toBeGreaterThan(40);
   for (const p of Object.keys(EXPECTED)) expect(ROUTES).toContain(p);
   for (const p of ROUTES) expect([p, bodyLimitFor(p)]).toEqual([p, EXPECTED[p] ?? DEFAULT_BODY_LIMIT]);
   expect(DEFAULT_BODY_LIMIT).toBe(MB);
-  expect(BODY_LIMITS.map((c) => c.name)).toEqual(["upload", "photos", "stripe-webhook"]);
+  expect(BODY_LIMITS.map((c) => c.name)).toEqual(["upload", "photos", "field-check-sync", "stripe-webhook"]);
 });
 
 test("the root middleware refuses a declared body one byte over the route's limit (413) and passes the limit itself", async () => {
