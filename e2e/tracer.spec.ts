@@ -22,11 +22,16 @@ test("A distributor traces three impeller curves from a PDF and imports them as 
   await page.getByTestId("picture-file").setInputFiles({ name: "invented-chart.pdf", mimeType: "application/pdf", buffer: Buffer.from(chartPdf()) });
   await page.getByRole("button", { name: "Store and open" }).click();
   await expect(page).toHaveURL(/\/trace\/\d+$/);
-  await page.getByTestId("render-scale").selectOption("1"); // one picture pixel per PDF point
+  // Hydrated first (the no-script notice is gone and the first render is done): a choice made before
+  // React takes over the page would be reset by it.
+  await expect(page.getByText("needs JavaScript")).toHaveCount(0);
   await expect(page.getByTestId("tracer")).toHaveAttribute("data-ready", "yes");
-  await expect(page.getByText("needs JavaScript")).toHaveCount(0); // hydrated: the no-script notice is gone
   const canvas = page.getByTestId("trace-canvas");
-  await expect(canvas).toHaveAttribute("width", String(CHART.width));
+  await expect(async () => {
+    await page.getByTestId("render-scale").selectOption("1"); // one picture pixel per PDF point
+    await expect(canvas).toHaveAttribute("width", String(CHART.width), { timeout: 2000 });
+  }).toPass();
+  await expect(page.getByTestId("tracer")).toHaveAttribute("data-ready", "yes");
   const click = async (q: number, h: number) => {
     const [x, y] = paper(q, h);
     await canvas.click({ position: { x, y } });
