@@ -17,7 +17,7 @@ import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, ana
 import { addCandidate, createProject, createSystem, listCandidates, selectCandidate } from "~/lib/projects.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
 import { makeMember } from "~/test/harness";
-import { closeDb } from "@db/client.server";
+import { runAsScript } from "./run-script";
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 const BODY = JSON.stringify({ flow_m3s: 0.1, diameter_m: 0.2, length_m: 100, roughness_m: 0.00026, temperature_c: 15.6 });
@@ -200,15 +200,4 @@ export async function runHttpBench() {
   return out.join("\n");
 }
 
-if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
-  runHttpBench()
-    .then(async (t) => {
-      console.log(t);
-      await closeDb();
-    })
-    .catch(async (e) => {
-      console.error(e);
-      await closeDb().catch(() => {});
-      process.exit(1);
-    });
-}
+runAsScript(import.meta.url, runHttpBench);

@@ -5,8 +5,6 @@
 //  - service: `searchForSystem` in this process (warm: its prepared index is kept per revision list),
 //  - page: GET /systems/:id/search through the built app server on loopback (server time + loopback),
 // and prints page / engine. Goals (issue 17): page ≤ 3 × engine, and ≤ 300 ms with 100 000 sets.
-import path from "node:path";
-import { fileURLToPath } from "node:url";
 import { startSession } from "~/lib/auth/session.server";
 import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored, searchableRevisions } from "~/lib/libraries.server";
 import { createProject, createSystem, getSystem } from "~/lib/projects.server";
@@ -14,8 +12,8 @@ import { buildPreparedSearch, searchForSystem, searchOptionsFor } from "~/lib/pr
 import { defaultSystemInput, evaluateSystem } from "~/lib/hydraulics";
 import { searchDuty } from "~/engine";
 import { makeMember } from "~/test/harness";
-import { closeDb } from "@db/client.server";
 import { appServer, bigLibraryCsv, timed } from "./http";
+import { runAsScript } from "./run-script";
 
 const RUNS = Number(process.env.BENCH_SEARCH_RUNS ?? 10);
 const STAGES = [10_000, 100_000];
@@ -84,15 +82,4 @@ export async function runSearchPageBench() {
   return out.join("\n");
 }
 
-if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {
-  runSearchPageBench()
-    .then(async (t) => {
-      console.log(t);
-      await closeDb();
-    })
-    .catch(async (e) => {
-      console.error(e);
-      await closeDb().catch(() => {});
-      process.exit(1);
-    });
-}
+runAsScript(import.meta.url, runSearchPageBench);
