@@ -1,4 +1,3 @@
-import * as v from "valibot";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import useSWR from "swr";
@@ -11,14 +10,16 @@ import { workspaceCurrency } from "~/lib/workspaces";
 import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
-import { AdjustmentSchema } from "~/lib/hydraulics";
-import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS, readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
+import { readAdjustForm } from "~/lib/projects/adjust-form";
+import { readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
-import { PipePicker } from "~/components/system-editor/PipePicker";
+import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
+import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
+import { RunsFieldset } from "~/components/system-editor/RunsFieldset";
+import { CandidateActions } from "~/components/system-editor/CandidateActions";
 import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
-import { fromSI, IE_CLASSES, toSI } from "~/engine";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
@@ -66,20 +67,9 @@ export async function action({ request, params }: Route.ActionArgs) {
       return { errors: {}, notice: "Candidate removed." };
     case "adjust": {
       const candidateId = formId(form, "candidateId");
-      const ratioRaw = String(form.get("ratio") ?? "").trim();
-      const motorRaw = Number(String(form.get("motorRating") ?? "").replace(",", ".") || 0);
-      const adj = v.safeParse(AdjustmentSchema, {
-        method: form.get("method"),
-        ratio: ratioRaw === "" ? null : Number(ratioRaw.replace(",", ".")) / 100,
-        arrangement: form.get("arrangement"),
-        dutyPumps: Number(form.get("dutyPumps") || 1),
-        standbyPumps: Number(form.get("standbyPumps") || 0),
-        motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? toSI("power", sys === "US" ? "hp" : "kW", motorRaw) : 0,
-        serviceFactor: Number(String(form.get("serviceFactor") ?? "1").replace(",", ".") || 1),
-        ieClass: form.get("ieClass") ?? undefined,
-      });
-      if (!adj.success) return { errors: { [`adj.${candidateId}`]: adj.issues.map((i) => i.message).join("; ") }, notice: null };
-      await adjustCandidate(viewer, candidateId, adj.output);
+      const adj = readAdjustForm(form, sys);
+      if (!adj.adjustment) return { errors: { [`adj.${candidateId}`]: adj.error }, notice: null };
+      await adjustCandidate(viewer, candidateId, adj.adjustment);
       return { errors: {}, notice: "Candidate adjusted." };
     }
     case "price": {
@@ -129,7 +119,6 @@ export default function SystemPage() {
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
   const errors = { ...(a?.errors ?? {}), ...liveErrors };
   const f = systemFormValues(d.input, d.unitSystem);
-  const u = (q: Parameters<typeof labelOf>[1]) => labelOf(d.unitSystem, q);
   const ro = !d.canWrite;
   return (
     <div className="space-y-4">
@@ -150,137 +139,10 @@ export default function SystemPage() {
       <div className="grid gap-4 xl:grid-cols-[minmax(22rem,30rem)_1fr]">
         <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs">
           <fieldset disabled={ro} className="space-y-4">
-            <section className="panel space-y-3">
-              <h2 className="font-semibold">System</h2>
-              <In label="Name" name="name" def={d.name} errors={errors} wide />
-              <div className="grid grid-cols-2 gap-3">
-                <div>
-                  <label className="label" htmlFor="f-fluidKind">
-                    Fluid
-                  </label>
-                  <select id="f-fluidKind" name="fluidKind" defaultValue={f.fluidKind} className="field">
-                    <option value="water">Water (IAPWS)</option>
-                    <option value="custom">Other liquid</option>
-                  </select>
-                </div>
-                <In label="Temperature" unit={u("temperature")} name="temperature" def={f.temperature} errors={errors} />
-              </div>
-              {draftInput.fluid?.kind === "custom" || f.fluidKind === "custom" ? (
-                <div className="grid grid-cols-2 gap-3">
-                  <In label="Liquid name" name="fluidName" def={f.fluidName} errors={errors} />
-                  <In label="Density" unit={u("density")} name="density" def={f.density} errors={errors} />
-                  <In label="Viscosity" unit={u("dynamicViscosity")} name="viscosity" def={f.viscosity} errors={errors} />
-                  <In label="Vapour pressure (abs.)" unit={u("pressure")} name="vaporPressure" def={f.vaporPressure} errors={errors} />
-                </div>
-              ) : null}
-              <div>
-                <span className="label">Kind of system</span>
-                <div className="mt-1 flex gap-4 text-sm">
-                  <label className="flex items-center gap-1">
-                    <input type="radio" name="mode" value="open" defaultChecked={f.mode === "open"} /> Open: lift between two surfaces
-                  </label>
-                  <label className="flex items-center gap-1">
-                    <input type="radio" name="mode" value="closed-loop" defaultChecked={f.mode === "closed-loop"} /> Closed loop
-                  </label>
-                </div>
-              </div>
-              <div className="grid grid-cols-2 gap-3">
-                <In label="Static head, low level" unit={u("head")} name="staticLow" def={f.staticLow} errors={errors} hint="Discharge surface minus suction surface, least lift" />
-                <In label="Static head, high level" unit={u("head")} name="staticHigh" def={f.staticHigh} errors={errors} hint="…most lift" />
-                <In label="Pressure difference" unit={u("pressure")} name="pressureDifference" def={f.pressureDifference} errors={errors} hint="Discharge minus suction surface, gauge" />
-                <In label="Control head (closed loop)" unit={u("head")} name="controlHead" def={f.controlHead} errors={errors} />
-              </div>
-              <h3 className="pt-2 text-sm font-semibold">Suction conditions (NPSH available)</h3>
-              <div className="grid grid-cols-2 gap-3">
-                <In label="Suction surface pressure (abs.)" unit={u("pressure")} name="suctionSurfacePressure" def={f.suctionSurfacePressure} errors={errors} />
-                <In label="Surface above pump" unit={u("head")} name="suctionStaticHead" def={f.suctionStaticHead} errors={errors} hint="Negative for a suction lift" />
-              </div>
-            </section>
-
-            <section className="panel space-y-3">
-              <h2 className="font-semibold">Duty point</h2>
-              <div className="grid grid-cols-2 gap-3">
-                <In label="Flow" unit={u("flow")} name="dutyFlow" def={f.dutyFlow} errors={errors} />
-                <In label="Head" unit={u("head")} name="dutyHead" def={f.dutyHead} errors={errors} />
-                <In label="Largest flow drawn" unit={u("flow")} name="flowMax" def={f.flowMax} errors={errors} hint="Blank: from the duty and pumps" />
-                <In label="NPSH margin ratio" name="npshMargin" def={f.npshMargin} errors={errors} hint="NPSHa/NPSHr wanted, 1.1–2.5 by application (ANSI/HI 9.6.1)" />
-                <In label="Operating hours per year" unit="h" name="hoursPerYear" def={f.hoursPerYear} errors={errors} />
-                <In label="Energy tariff" unit={`${d.currency} per kWh`} name="tariffPerKWh" def={f.tariffPerKWh} errors={errors} hint="Workspace currency (set on the workspace page)" />
-                <In label="Flow tolerance below the duty" unit="%" name="tolMinus" def={f.tolMinus} errors={errors} hint="Verdict: the pump must deliver at least the duty flow less this" />
-                <In label="Flow tolerance above the duty" unit="%" name="tolPlus" def={f.tolPlus} errors={errors} hint="More than this above the duty: oversized" />
-              </div>
-              {view.evaluation?.dutyCheck ? (
-                <div className={`rounded-md border p-2 text-xs ${view.evaluation.dutyCheck.differs ? "border-amber-400 bg-amber-50" : "border-slate-200"}`} data-testid="duty-check" data-differs={view.evaluation.dutyCheck.differs ? "yes" : "no"}>
-                  <p>{view.evaluation.dutyCheck.differs ? "▲ " : ""}{view.evaluation.dutyCheck.message}</p>
-                  <p className="mt-1 text-slate-600">{view.evaluation.dutyCheck.governs}</p>
-                </div>
-              ) : null}
-            </section>
-
+            <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
+            <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view.evaluation?.dutyCheck} />
             <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} />
-            <section className="panel space-y-3">
-              <h2 className="font-semibold">Pipe runs</h2>
-              <input type="hidden" name="runCount" value={f.runs.length} />
-              {f.runs.map((r, i) => (
-                <fieldset key={i} className="space-y-2 rounded-md border border-slate-200 p-3">
-                  <legend className="px-1 text-sm font-semibold">
-                    {r.side === "suction" ? "Suction" : "Discharge"} · {r.name}
-                  </legend>
-                  <div className="grid grid-cols-2 gap-2">
-                    <In label="Name" name={`run.${i}.name`} def={r.name} errors={errors} />
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.side`}>
-                        Side
-                      </label>
-                      <select id={`f-run.${i}.side`} name={`run.${i}.side`} defaultValue={r.side} className="field">
-                        <option value="suction">suction</option>
-                        <option value="discharge">discharge</option>
-                      </select>
-                    </div>
-                    <PipePicker index={i} table={r.table} nominal={r.nominal} unitSystem={d.unitSystem} error={errors[`run.${i}.nominal`]} />
-                    <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
-                    <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
-                    <div>
-                      <label className="label" htmlFor={`f-run.${i}.material`}>
-                        Material
-                      </label>
-                      <select id={`f-run.${i}.material`} name={`run.${i}.material`} defaultValue={r.material} className="field">
-                        {MATERIAL_OPTIONS.map((m) => (
-                          <option key={m.id} value={m.id}>
-                            {m.name}
-                          </option>
-                        ))}
-                      </select>
-                    </div>
-                    <In label="Extra ΣK" name={`run.${i}.extraK`} def={r.extraK} errors={errors} />
-                    <In label="Roughness new" unit={u("roughness")} name={`run.${i}.roughness`} def={r.roughness} placeholder={r.roughnessPlaceholder} errors={errors} />
-                    <In label="Roughness aged" unit={u("roughness")} name={`run.${i}.agedRoughness`} def={r.agedRoughness} placeholder={r.agedPlaceholder} errors={errors} />
-                  </div>
-                  <details className="text-sm" open={Object.keys(r.fittings).length > 0}>
-                    <summary className="cursor-pointer font-semibold">Fittings (Crane TP-410 K values)</summary>
-                    <div className="mt-2 grid grid-cols-2 gap-2">
-                      {EDITOR_FITTINGS.map(([fid, label]) => (
-                        <label key={fid} className="flex items-center justify-between gap-2 text-xs">
-                          {label}
-                          <input name={`run.${i}.fit.${fid}`} type="number" min={0} max={500} step={1} defaultValue={r.fittings[fid] ?? 0} className="field w-16 py-0.5" />
-                        </label>
-                      ))}
-                    </div>
-                  </details>
-                  <label className="flex items-center gap-2 text-xs text-slate-600">
-                    <input type="checkbox" name={`run.${i}.remove`} /> remove this run on save
-                  </label>
-                </fieldset>
-              ))}
-              <div className="flex flex-wrap gap-2">
-                <button className="btn-quiet" name="addRun" value="suction">
-                  + suction run
-                </button>
-                <button className="btn-quiet" name="addRun" value="discharge">
-                  + discharge run
-                </button>
-              </div>
-            </section>
+            <RunsFieldset f={f} errors={errors} unitSystem={d.unitSystem} />
             {!ro ? (
               <div className="sticky bottom-2 flex items-center gap-3">
                 <button className="btn shadow-lg" name="intent" value="save">
@@ -317,30 +179,7 @@ export default function SystemPage() {
               <CandidateTable
                 view={view}
                 unitSystem={d.unitSystem}
-                actions={(c) =>
-                  d.canWrite || d.canSelect ? (
-                    <div className="space-y-2">
-                      {d.canWrite ? <AdjustForm c={c} unitSystem={d.unitSystem} error={errors[`adj.${c.id}`]} /> : null}
-                      {d.canSelect && c.result?.operating ? (
-                        <Form method="post" className="space-y-1">
-                          <input type="hidden" name="candidateId" value={c.id} />
-                          <input name="title" className="field py-0.5 text-xs" placeholder="Selection title" defaultValue={c.label} aria-label={`Title for selecting ${c.label}`} />
-                          <button className="btn w-full justify-center" name="intent" value="select">
-                            Select this pump
-                          </button>
-                        </Form>
-                      ) : null}
-                      {d.canWrite ? (
-                        <Form method="post">
-                          <input type="hidden" name="candidateId" value={c.id} />
-                          <button className="text-xs text-slate-600 underline" name="intent" value="remove-candidate">
-                            remove
-                          </button>
-                        </Form>
-                      ) : null}
-                    </div>
-                  ) : null
-                }
+                actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
               />
             )}
           </section>
@@ -361,90 +200,6 @@ export default function SystemPage() {
           ) : null}
         </div>
       </div>
-    </div>
-  );
-}
-
-function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; error?: string }) {
-  const a = c.adjustment;
-  return (
-    <Form method="post" className="space-y-1 text-xs">
-      <input type="hidden" name="candidateId" value={c.id} />
-      <label className="block">
-        Adjust by
-        <select name="method" defaultValue={a.method} className="field py-0.5 text-xs">
-          <option value="none">nothing (as published)</option>
-          <option value="speed">speed (VFD)</option>
-          <option value="trim">impeller trim</option>
-        </select>
-      </label>
-      <label className="block">
-        Ratio % (blank: solve for the duty)
-        <input name="ratio" inputMode="decimal" defaultValue={a.ratio != null ? String(+(a.ratio * 100).toFixed(2)) : ""} className="field py-0.5 text-xs" />
-      </label>
-      <label className="block">
-        Pumps
-        <select name="arrangement" defaultValue={a.arrangement} className="field py-0.5 text-xs">
-          <option value="single">one pump</option>
-          <option value="parallel">in parallel</option>
-          <option value="series">in series</option>
-        </select>
-      </label>
-      <div className="flex gap-1">
-        <label className="block">
-          duty
-          <input name="dutyPumps" type="number" min={1} max={8} defaultValue={a.dutyPumps} className="field w-14 py-0.5 text-xs" />
-        </label>
-        <label className="block">
-          standby
-          <input name="standbyPumps" type="number" min={0} max={8} defaultValue={a.standbyPumps} className="field w-14 py-0.5 text-xs" />
-        </label>
-      </div>
-      <div className="flex gap-1">
-        <label className="block">
-          motor {unitSystem === "US" ? "hp" : "kW"} (blank: suggested)
-          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+fromSI("power", unitSystem === "US" ? "hp" : "kW", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
-        </label>
-        <label className="block">
-          service factor
-          <input name="serviceFactor" inputMode="decimal" defaultValue={a.serviceFactor} className="field w-14 py-0.5 text-xs" />
-        </label>
-        <label className="block">
-          class
-          <select name="ieClass" defaultValue={a.ieClass ?? "IE3"} className="field py-0.5 text-xs">
-            {IE_CLASSES.map((k) => (
-              <option key={k} value={k}>
-                {k}
-              </option>
-            ))}
-          </select>
-        </label>
-      </div>
-      {error ? <p className="text-fail">{error}</p> : null}
-      <button className="btn-quiet w-full justify-center py-0.5 text-xs" name="intent" value="adjust">
-        Apply
-      </button>
-    </Form>
-  );
-}
-
-function In({ label, name, def, errors, unit, hint, wide, placeholder }: { label: string; name: string; def: string; errors: FormErrors; unit?: string; hint?: string; wide?: boolean; placeholder?: string }) {
-  const id = `f-${name}`;
-  const err = errors[name];
-  return (
-    <div className={wide ? "col-span-2" : ""}>
-      <label htmlFor={id} className="label">
-        {label}
-        {unit ? <span className="ml-1 font-normal normal-case text-slate-500">({unit})</span> : null}
-      </label>
-      <input id={id} name={name} defaultValue={def} placeholder={placeholder} inputMode="decimal" className="field" aria-invalid={err ? true : undefined} aria-describedby={err ? `${id}-err` : undefined} />
-      {err ? (
-        <p id={`${id}-err`} className="text-xs text-fail" role="alert">
-          {err}
-        </p>
-      ) : hint ? (
-        <p className="text-xs text-slate-500">{hint}</p>
-      ) : null}
     </div>
   );
 }

@@ -1,0 +1,70 @@
+// How one candidate is run: as published, by speed or trim (ratio or solved for the duty),
+// single/parallel/series with standby, motor rating, service factor and efficiency class.
+import { Form } from "react-router";
+import { fromSI, IE_CLASSES, UNIT_SYSTEMS, unitLabel } from "~/engine";
+import type { UnitSystem } from "~/lib/system-form";
+import type { WorkbenchView } from "~/lib/workbench-view";
+
+export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; error?: string }) {
+  const a = c.adjustment;
+  const powerUnit = UNIT_SYSTEMS[unitSystem].power;
+  return (
+    <Form method="post" className="space-y-1 text-xs">
+      <input type="hidden" name="candidateId" value={c.id} />
+      <label className="block">
+        Adjust by
+        <select name="method" defaultValue={a.method} className="field py-0.5 text-xs">
+          <option value="none">nothing (as published)</option>
+          <option value="speed">speed (VFD)</option>
+          <option value="trim">impeller trim</option>
+        </select>
+      </label>
+      <label className="block">
+        Ratio % (blank: solve for the duty)
+        <input name="ratio" inputMode="decimal" defaultValue={a.ratio != null ? String(+(a.ratio * 100).toFixed(2)) : ""} className="field py-0.5 text-xs" />
+      </label>
+      <label className="block">
+        Pumps
+        <select name="arrangement" defaultValue={a.arrangement} className="field py-0.5 text-xs">
+          <option value="single">one pump</option>
+          <option value="parallel">in parallel</option>
+          <option value="series">in series</option>
+        </select>
+      </label>
+      <div className="flex gap-1">
+        <label className="block">
+          duty
+          <input name="dutyPumps" type="number" min={1} max={8} defaultValue={a.dutyPumps} className="field w-14 py-0.5 text-xs" />
+        </label>
+        <label className="block">
+          standby
+          <input name="standbyPumps" type="number" min={0} max={8} defaultValue={a.standbyPumps} className="field w-14 py-0.5 text-xs" />
+        </label>
+      </div>
+      <div className="flex gap-1">
+        <label className="block">
+          motor {unitLabel("power", powerUnit)} (blank: suggested)
+          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+fromSI("power", powerUnit, a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
+        </label>
+        <label className="block">
+          service factor
+          <input name="serviceFactor" inputMode="decimal" defaultValue={a.serviceFactor} className="field w-14 py-0.5 text-xs" />
+        </label>
+        <label className="block">
+          class
+          <select name="ieClass" defaultValue={a.ieClass ?? "IE3"} className="field py-0.5 text-xs">
+            {IE_CLASSES.map((k) => (
+              <option key={k} value={k}>
+                {k}
+              </option>
+            ))}
+          </select>
+        </label>
+      </div>
+      {error ? <p className="text-fail">{error}</p> : null}
+      <button className="btn-quiet w-full justify-center py-0.5 text-xs" name="intent" value="adjust">
+        Apply
+      </button>
+    </Form>
+  );
+}

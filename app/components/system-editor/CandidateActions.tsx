@@ -1,0 +1,32 @@
+// What a member may do with one candidate in the table: adjust it (writers), select it into a
+// frozen selection (selection writers, only with an operating point), remove it (writers).
+import { Form } from "react-router";
+import type { FormErrors, UnitSystem } from "~/lib/system-form";
+import type { WorkbenchView } from "~/lib/workbench-view";
+import { AdjustForm } from "./AdjustForm";
+
+export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; errors: FormErrors; canWrite: boolean; canSelect: boolean }) {
+  if (!canWrite && !canSelect) return null;
+  return (
+    <div className="space-y-2">
+      {canWrite ? <AdjustForm c={c} unitSystem={unitSystem} error={errors[`adj.${c.id}`]} /> : null}
+      {canSelect && c.result?.operating ? (
+        <Form method="post" className="space-y-1">
+          <input type="hidden" name="candidateId" value={c.id} />
+          <input name="title" className="field py-0.5 text-xs" placeholder="Selection title" defaultValue={c.label} aria-label={`Title for selecting ${c.label}`} />
+          <button className="btn w-full justify-center" name="intent" value="select">
+            Select this pump
+          </button>
+        </Form>
+      ) : null}
+      {canWrite ? (
+        <Form method="post">
+          <input type="hidden" name="candidateId" value={c.id} />
+          <button className="text-xs text-slate-600 underline" name="intent" value="remove-candidate">
+            remove
+          </button>
+        </Form>
+      ) : null}
+    </div>
+  );
+}

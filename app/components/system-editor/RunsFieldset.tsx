@@ -1,0 +1,81 @@
+// The pipe runs of the editor: one fieldset per run (table size or inner diameter, length,
+// material, roughness, fittings), remove on save, and the buttons that add a run.
+import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS } from "~/lib/system-form";
+import { PipePicker } from "./PipePicker";
+import { NumberField as In } from "./NumberField";
+import type { FieldsetProps, SystemFormValues } from "./types";
+
+export function RunsFieldset({ f, errors, unitSystem }: FieldsetProps) {
+  return (
+    <section className="panel space-y-3">
+      <h2 className="font-semibold">Pipe runs</h2>
+      <input type="hidden" name="runCount" value={f.runs.length} />
+      {f.runs.map((r, i) => (
+        <RunFieldset key={i} r={r} i={i} errors={errors} unitSystem={unitSystem} />
+      ))}
+      <div className="flex flex-wrap gap-2">
+        <button className="btn-quiet" name="addRun" value="suction">
+          + suction run
+        </button>
+        <button className="btn-quiet" name="addRun" value="discharge">
+          + discharge run
+        </button>
+      </div>
+    </section>
+  );
+}
+
+function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { r: SystemFormValues["runs"][number]; i: number }) {
+  const u = (q: Parameters<typeof labelOf>[1]) => labelOf(unitSystem, q);
+  return (
+    <fieldset className="space-y-2 rounded-md border border-slate-200 p-3">
+      <legend className="px-1 text-sm font-semibold">
+        {r.side === "suction" ? "Suction" : "Discharge"} · {r.name}
+      </legend>
+      <div className="grid grid-cols-2 gap-2">
+        <In label="Name" name={`run.${i}.name`} def={r.name} errors={errors} />
+        <div>
+          <label className="label" htmlFor={`f-run.${i}.side`}>
+            Side
+          </label>
+          <select id={`f-run.${i}.side`} name={`run.${i}.side`} defaultValue={r.side} className="field">
+            <option value="suction">suction</option>
+            <option value="discharge">discharge</option>
+          </select>
+        </div>
+        <PipePicker index={i} table={r.table} nominal={r.nominal} unitSystem={unitSystem} error={errors[`run.${i}.nominal`]} />
+        <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
+        <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
+        <div>
+          <label className="label" htmlFor={`f-run.${i}.material`}>
+            Material
+          </label>
+          <select id={`f-run.${i}.material`} name={`run.${i}.material`} defaultValue={r.material} className="field">
+            {MATERIAL_OPTIONS.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.name}
+              </option>
+            ))}
+          </select>
+        </div>
+        <In label="Extra ΣK" name={`run.${i}.extraK`} def={r.extraK} errors={errors} />
+        <In label="Roughness new" unit={u("roughness")} name={`run.${i}.roughness`} def={r.roughness} placeholder={r.roughnessPlaceholder} errors={errors} />
+        <In label="Roughness aged" unit={u("roughness")} name={`run.${i}.agedRoughness`} def={r.agedRoughness} placeholder={r.agedPlaceholder} errors={errors} />
+      </div>
+      <details className="text-sm" open={Object.keys(r.fittings).length > 0}>
+        <summary className="cursor-pointer font-semibold">Fittings (Crane TP-410 K values)</summary>
+        <div className="mt-2 grid grid-cols-2 gap-2">
+          {EDITOR_FITTINGS.map(([fid, label]) => (
+            <label key={fid} className="flex items-center justify-between gap-2 text-xs">
+              {label}
+              <input name={`run.${i}.fit.${fid}`} type="number" min={0} max={500} step={1} defaultValue={r.fittings[fid] ?? 0} className="field w-16 py-0.5" />
+            </label>
+          ))}
+        </div>
+      </details>
+      <label className="flex items-center gap-2 text-xs text-slate-600">
+        <input type="checkbox" name={`run.${i}.remove`} /> remove this run on save
+      </label>
+    </fieldset>
+  );
+}
