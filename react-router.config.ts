@@ -5,12 +5,12 @@ export default {
   appDirectory: "app",
   ssr: true,
   future: { v8_middleware: true },
-  // The upload analysis runs in a worker thread (app/lib/upload-analysis.server.ts); its entry is
+  // The upload analysis runs in a worker thread (app/lib/libraries/upload-analysis.server.ts); its entry is
   // bundled next to the server build, where the server looks for it.
   async buildEnd({ reactRouterConfig }) {
     const { build } = await import("esbuild");
     await build({
-      entryPoints: ["app/lib/upload-analysis.worker.ts"],
+      entryPoints: ["app/lib/libraries/upload-analysis.worker.ts"],
       outfile: path.join(reactRouterConfig.buildDirectory, "server", "upload-analysis-worker.mjs"),
       bundle: true,
       packages: "external", // node_modules at run time, as for the server build (the worker reads uploads through the mariadb connector)

@@ -13,9 +13,9 @@ import { runCalc } from "~/lib/calc-api";
 import { TOKEN_CACHE_MS } from "~/lib/auth/token-cache.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { startSession } from "~/lib/auth/session.server";
-import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored } from "~/lib/libraries.server";
-import { addCandidate, createProject, createSystem, listCandidates, selectCandidate } from "~/lib/projects.server";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/hydraulics";
+import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored } from "~/lib/libraries";
+import { addCandidate, createProject, createSystem, listCandidates, selectCandidate } from "~/lib/projects";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/projects/hydraulics";
 import { makeMember } from "~/test/harness";
 import { runAsScript } from "./run-script";
 
@@ -177,7 +177,7 @@ export async function runHttpBench() {
     const projectId = await createProject(ev, { name: "Bench", site: "", description: "" });
     const input = { ...defaultSystemInput(), duty: { flow: 40 / 3600, head: 35 } };
     const systemId = await createSystem(ev, projectId, "Bench system", input);
-    const firstSet = (await import("~/lib/libraries.server")).libraryCurves;
+    const firstSet = (await import("~/lib/libraries")).libraryCurves;
     const sets = await firstSet(ev, libId);
     for (const s of sets.slice(0, 3)) await addCandidate(ev, systemId, s.id, DEFAULT_ADJUSTMENT);
     const cookie = (await startSession(eng.userId, new Request("http://127.0.0.1/"))).split(";")[0];

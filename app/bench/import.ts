@@ -24,9 +24,9 @@ import { closeDb, db, getPool } from "@db/client.server";
 import { libraries, users, workspaces } from "@db/schema";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
 import { analyseCsv } from "~/lib/import";
-import { analyseStored, createLibrary, getUpload, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries.server";
+import { analyseStored, createLibrary, getUpload, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries";
 import { workspacesOf } from "~/lib/auth/guards.server";
-import { stopAnalysisWorker } from "~/lib/upload-analysis.server";
+import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 import { makeMember } from "~/test/harness";
 
 export interface BenchRow {

@@ -1,7 +1,7 @@
 /**
  * Mapping page of a big upload: 200 000 curve points (fixtures/csv/make-big.ts, invented data),
  * stored once, then the page's loader called twice as a signed-in distributor. The analysis runs in
- * a worker thread (app/lib/upload-analysis.server.ts); this prints the longest event-loop stall
+ * a worker thread (app/lib/libraries/upload-analysis.server.ts); this prints the longest event-loop stall
  * seen during each view (perf_hooks.monitorEventLoopDelay, 10 ms resolution, and a 5 ms interval
  * probe) and the view's time; then imports the upload the same way (parse and validation in the
  * worker, the writes from this thread). Goal (issue 14): no stall over 100 ms.
@@ -11,10 +11,10 @@
 import { monitorEventLoopDelay, performance } from "node:perf_hooks";
 import { closeDb } from "@db/client.server";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
-import { createLibrary, importUpload, storeUpload } from "~/lib/libraries.server";
+import { createLibrary, importUpload, storeUpload } from "~/lib/libraries";
 import { call, makeMember } from "~/test/harness";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
-import { stopAnalysisWorker } from "~/lib/upload-analysis.server";
+import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 
 const points = Number(process.argv[2] ?? 200_000);
 const m = await makeMember("distributor");

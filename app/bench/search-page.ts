@@ -6,10 +6,10 @@
 //  - page: GET /systems/:id/search through the built app server on loopback (server time + loopback),
 // and prints page / engine. Goals (issue 17): page ≤ 3 × engine, and ≤ 300 ms with 100 000 sets.
 import { startSession } from "~/lib/auth/session.server";
-import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored, searchableRevisions } from "~/lib/libraries.server";
-import { createProject, createSystem, getSystem } from "~/lib/projects.server";
-import { buildPreparedSearch, searchForSystem, searchOptionsFor } from "~/lib/projects/search.server";
-import { defaultSystemInput, evaluateSystem } from "~/lib/hydraulics";
+import { createLibrary, getUpload, importUpload, storeUpload, updateLibrary, analyseStored, searchableRevisions } from "~/lib/libraries";
+import { createProject, createSystem, getSystem } from "~/lib/projects";
+import { buildPreparedSearch, searchForSystem, searchOptionsFor } from "~/lib/projects";
+import { defaultSystemInput, evaluateSystem } from "~/lib/projects/hydraulics";
 import { searchDuty } from "~/engine";
 import { makeMember } from "~/test/harness";
 import { appServer, bigLibraryCsv, timed } from "./http";

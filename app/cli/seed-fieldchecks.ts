@@ -5,9 +5,9 @@ import { db } from "../../db/client.server";
 import { fieldChecks, projects, projectShares, selections, users, workspaces } from "../../db/schema";
 import { fieldSelection, recordFieldCheck } from "../lib/fieldchecks/records.server";
 import { blankFields, evaluateCheck, type Readings } from "../lib/fieldchecks";
-import { fluidOf } from "../lib/hydraulics";
+import { fluidOf } from "../lib/projects/hydraulics";
 import { G0 } from "../engine";
-import type { Viewer } from "../lib/libraries.server";
+import type { Viewer } from "../lib/libraries";
 
 export async function seedFieldChecks(): Promise<{ shared: number; checks: number }> {
   const [kestrel] = await db().select().from(workspaces).where(eq(workspaces.slug, "kestrel"));

@@ -1,6 +1,6 @@
 import { Form } from "react-router";
 
-import type { FlaggedRow } from "~/lib/upload-analysis";
+import type { FlaggedRow } from "~/lib/libraries/upload-analysis";
 
 export type { FlaggedRow };
 

@@ -2,10 +2,10 @@
 // per-run table and the candidate comparison table. All inputs SI; display through ./units.
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
-import type { WorkbenchView } from "~/lib/workbench-view";
+import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
 import { verdictLabel, type Verdict } from "~/engine";
-import type { BandPoint } from "~/lib/candidate-judgement";
+import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
 
 type Cand = WorkbenchView["candidates"][number];

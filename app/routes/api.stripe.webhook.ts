@@ -1,5 +1,5 @@
 import type { Route } from "./+types/api.stripe.webhook";
-import { handleStripeWebhook } from "~/lib/billing/billing.server";
+import { handleStripeWebhook } from "~/lib/billing";
 import { problem } from "~/lib/shared/problem.server";
 
 // POST /api/stripe/webhook — Stripe's (or the local stand-in's) signed events. No session, no

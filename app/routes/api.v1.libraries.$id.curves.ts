@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.curves";
 import { requireApi } from "~/lib/auth/guards.server";
-import { libraryCurves } from "~/lib/libraries.server";
+import { libraryCurves } from "~/lib/libraries";
 import { forbidden, notFound, badRequest } from "~/lib/shared/problem.server";
 import { IdField, readQuery } from "~/lib/shared/forms.server";
 

@@ -1,7 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.models";
 import { requireApi } from "~/lib/auth/guards.server";
-import { listModels } from "~/lib/libraries.server";
+import { listModels } from "~/lib/libraries";
 import { badRequest } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { IdField } from "~/lib/shared/forms.server";

@@ -1,12 +1,12 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.upload";
 import { requireApi } from "~/lib/auth/guards.server";
-import { storeUpload, UploadRejected } from "~/lib/libraries.server";
-import { AnalysisFailed, analyseForImport } from "~/lib/upload-analysis.server";
+import { storeUpload, UploadRejected } from "~/lib/libraries";
+import { AnalysisFailed, analyseForImport } from "~/lib/libraries/upload-analysis.server";
 import { runImport } from "~/lib/libraries/import-run.server";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
-import { discardUpload, getUploadMeta } from "~/lib/uploads.server";
+import { discardUpload, getUploadMeta } from "~/lib/libraries/uploads.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
 
 class MappingRefused extends Error {}

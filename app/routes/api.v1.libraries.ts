@@ -1,6 +1,6 @@
 import type { Route } from "./+types/api.v1.libraries";
 import { requireApi } from "~/lib/auth/guards.server";
-import { listLibraries } from "~/lib/libraries.server";
+import { listLibraries } from "~/lib/libraries";
 
 // GET /api/v1/libraries — every library the caller may see; locked ones are listed without curves.
 export async function loader({ request }: Route.LoaderArgs) {

@@ -1,11 +1,11 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.preview";
 import { requireApi } from "~/lib/auth/guards.server";
-import { systemWorkbench } from "~/lib/projects.server";
-import { SystemInputSchema } from "~/lib/hydraulics";
+import { systemWorkbench } from "~/lib/projects";
+import { SystemInputSchema } from "~/lib/projects/hydraulics";
 import { badRequest, notFound } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
-import { workbenchView } from "~/lib/workbench-view";
+import { workbenchView } from "~/lib/projects/workbench-view";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
 // unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout.

@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { IdField, readQuery } from "~/lib/shared/forms.server";
-import { systemSearchView } from "~/lib/systems-api.server";
+import { systemSearchView } from "~/lib/projects";
 
 const METHODS = ["direct", "trim", "speed"] as const;
 

@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { IdField } from "~/lib/shared/forms.server";
-import { systemReadView } from "~/lib/systems-api.server";
+import { systemReadView } from "~/lib/projects";
 
 // GET /api/v1/systems/:id — the stored system evaluated with its candidates: { input, evaluation, candidates }
 // (the same view as POST …/preview). SI units throughout.

@@ -1,6 +1,6 @@
 import type { Route } from "./+types/libraries.$id.export-csv";
 import { requireMember } from "~/lib/auth/guards.server";
-import { curvesToCsv, libraryCurves } from "~/lib/libraries.server";
+import { curvesToCsv, libraryCurves } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 

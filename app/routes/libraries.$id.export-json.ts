@@ -1,6 +1,6 @@
 import type { Route } from "./+types/libraries.$id.export-json";
 import { requireMember } from "~/lib/auth/guards.server";
-import { getLibrary, libraryCurves } from "~/lib/libraries.server";
+import { getLibrary, libraryCurves } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 

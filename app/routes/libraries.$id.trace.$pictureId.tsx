@@ -4,7 +4,7 @@ import type { Route } from "./+types/libraries.$id.trace.$pictureId";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { invalid, readForm, readId } from "~/lib/shared/forms.server";
-import { UploadRejected } from "~/lib/libraries.server";
+import { UploadRejected } from "~/lib/libraries";
 import { getPicture, MAX_TRACED_CSV_BYTES, storeTracedCsv } from "~/lib/tracer/pictures.server";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { FormError, Notice } from "~/components/forms";

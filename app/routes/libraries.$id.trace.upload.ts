@@ -3,7 +3,7 @@ import type { Route } from "./+types/libraries.$id.trace.upload";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, readFormSafe } from "~/lib/shared/forms.server";
-import { UploadRejected } from "~/lib/libraries.server";
+import { UploadRejected } from "~/lib/libraries";
 import { storePicture } from "~/lib/tracer/pictures.server";
 
 // POST /libraries/:id/trace/upload (multipart, field "file"): stores a datasheet picture and opens it

@@ -2,7 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
+import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";

@@ -1,7 +1,7 @@
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.upload";
 import { requireMember } from "~/lib/auth/guards.server";
-import { storeUpload, UploadRejected } from "~/lib/libraries.server";
+import { storeUpload, UploadRejected } from "~/lib/libraries";
 import { readId, readFormSafe } from "~/lib/shared/forms.server";
 
 // POST /libraries/:id/upload (multipart, field "file"). A browser form gets a redirect to the

@@ -2,16 +2,16 @@ import * as v from "valibot";
 import { data, Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id.uploads.$uploadId";
 import { requireMember } from "~/lib/auth/guards.server";
-import { prepareImport, UploadRejected } from "~/lib/libraries.server";
+import { prepareImport, UploadRejected } from "~/lib/libraries";
 import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/libraries/import-run.server";
-import { getUploadMeta } from "~/lib/uploads.server";
-import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
-import type { UploadSummary } from "~/lib/upload-analysis";
+import { getUploadMeta } from "~/lib/libraries/uploads.server";
+import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis.server";
+import type { UploadSummary } from "~/lib/libraries/upload-analysis";
 import {
   blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
   type CellEdit, type Encoding, type Mapping, type NumericField,
 } from "~/lib/import";
-import { saveCorrectedUpload } from "~/lib/upload-fix.server";
+import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { FormError, Notice } from "~/components/forms";
@@ -22,7 +22,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
-/** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
+/** The analysis runs in a worker thread and is kept per upload (app/lib/libraries/upload-analysis.server.ts). */
 const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
   summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping).catch((e) => {
     if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });

@@ -3,7 +3,7 @@ import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { createLibrary, listLibraries } from "~/lib/libraries.server";
+import { createLibrary, listLibraries } from "~/lib/libraries";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";

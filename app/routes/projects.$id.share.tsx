@@ -4,7 +4,7 @@ import type { Route } from "./+types/projects.$id.share";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { IdField, invalid, readForm, readId } from "~/lib/shared/forms.server";
-import { listShares, shareProject, unshareProject } from "~/lib/projects/shares.server";
+import { listShares, shareProject, unshareProject } from "~/lib/projects";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the

@@ -2,7 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects.server";
+import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";

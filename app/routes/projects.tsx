@@ -2,7 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useActionData, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects";
 import { requireMember } from "~/lib/auth/guards.server";
-import { createProject, listProjects } from "~/lib/projects.server";
+import { createProject, listProjects } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";

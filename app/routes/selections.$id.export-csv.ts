@@ -1,9 +1,8 @@
 import type { Route } from "./+types/selections.$id.export-csv";
 import { requireMember } from "~/lib/auth/guards.server";
-import { getSelection } from "~/lib/projects.server";
+import { getSelection, selectionCsv } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
-import { selectionCsv } from "~/lib/selection-export.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");

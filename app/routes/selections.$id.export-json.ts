@@ -1,6 +1,6 @@
 import type { Route } from "./+types/selections.$id.export-json";
 import { requireMember } from "~/lib/auth/guards.server";
-import { getSelection } from "~/lib/projects.server";
+import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 

@@ -1,16 +1,16 @@
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/selections.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { getSelection } from "~/lib/projects.server";
+import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
-import { EDITOR_FITTINGS } from "~/lib/system-form";
+import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
-import type { WorkbenchView } from "~/lib/workbench-view";
-import { resultFlowMax } from "~/lib/hydraulics";
+import type { WorkbenchView } from "~/lib/projects/workbench-view";
+import { resultFlowMax } from "~/lib/projects/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];

@@ -3,15 +3,15 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation } from "rea
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects.server";
+import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects";
 import { DEFAULT_ENERGY_SETTINGS, readPriceCents } from "~/lib/projects/energy";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { workspaceCurrency } from "~/lib/workspaces";
-import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
+import { workbenchView, type WorkbenchView } from "~/lib/projects/workbench-view";
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { readAdjustForm } from "~/lib/projects/adjust-form";
-import { readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
+import { readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/projects/system-form";
 import { FormError, Notice } from "~/components/forms";
 import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";

@@ -5,7 +5,7 @@ import type { Route } from "./+types/workspace.billing";
 import { requireMember } from "~/lib/auth/guards.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, readForm, readQuery } from "~/lib/shared/forms.server";
-import { listLibraries } from "~/lib/libraries.server";
+import { listLibraries } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import {
   AlreadySubscribed,
@@ -18,7 +18,7 @@ import {
   setCancelAtPeriodEnd,
   startCheckout,
   type InvoiceRow,
-} from "~/lib/billing/billing.server";
+} from "~/lib/billing";
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";

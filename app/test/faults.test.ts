@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels } from "@db/schema";
-import { createLibrary } from "~/lib/libraries.server";
+import { createLibrary } from "~/lib/libraries";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { freePort, makeMember } from "./harness";
 import { makeBigCsv } from "../../fixtures/csv/make-big";

@@ -2,8 +2,8 @@
 // on the default system, stored as a project / system / selection of a workspace.
 import { db } from "@db/client.server";
 import { projects, selections, systems } from "@db/schema";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/hydraulics";
-import type { FrozenSelection } from "~/lib/projects.server";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
+import type { FrozenSelection } from "~/lib/projects";
 
 /** Points of H = h0 − k·Q (m, m³/s) from Q = 0 to qMax, with a flat 70 % efficiency hump. */
 export function linearPoints(h0 = 40, k = 1000, qMax = 0.03, n = 7) {

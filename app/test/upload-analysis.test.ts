@@ -5,9 +5,9 @@
 import { readFileSync } from "node:fs";
 import { afterAll, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createLibrary, storeUpload } from "~/lib/libraries.server";
-import { analyseStored, summarise } from "~/lib/upload-analysis";
-import { analysisCacheSize, stopAnalysisWorker, summariseUpload } from "~/lib/upload-analysis.server";
+import { createLibrary, storeUpload } from "~/lib/libraries";
+import { analyseStored, summarise } from "~/lib/libraries/upload-analysis";
+import { analysisCacheSize, stopAnalysisWorker, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
 import { call, makeMember } from "./harness";
 

@@ -2,8 +2,8 @@
 // single/parallel/series with standby, motor rating, service factor and efficiency class.
 import { Form } from "react-router";
 import { fromSI, IE_CLASSES, UNIT_SYSTEMS, unitLabel } from "~/engine";
-import type { UnitSystem } from "~/lib/system-form";
-import type { WorkbenchView } from "~/lib/workbench-view";
+import type { UnitSystem } from "~/lib/projects/system-form";
+import type { WorkbenchView } from "~/lib/projects/workbench-view";
 
 export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; error?: string }) {
   const a = c.adjustment;

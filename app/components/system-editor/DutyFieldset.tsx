@@ -1,7 +1,7 @@
 // The duty section of the editor: duty point, margins, hours, tariff, the verdict's flow band,
 // and the check of the duty head against the system curve.
-import { labelOf } from "~/lib/system-form";
-import type { DutyCheck } from "~/lib/hydraulics";
+import { labelOf } from "~/lib/projects/system-form";
+import type { DutyCheck } from "~/lib/projects/hydraulics";
 import { NumberField as In } from "./NumberField";
 import type { FieldsetProps } from "./types";
 

@@ -1,6 +1,6 @@
 // One labelled input of the system editor: unit beside the label, the server's or the live
 // reader's error under it (linked by aria-describedby), else the hint.
-import type { FormErrors } from "~/lib/system-form";
+import type { FormErrors } from "~/lib/projects/system-form";
 
 export function NumberField({ label, name, def, errors, unit, hint, wide, placeholder }: { label: string; name: string; def: string; errors: FormErrors; unit?: string; hint?: string; wide?: boolean; placeholder?: string }) {
   const id = `f-${name}`;

@@ -1,4 +1,4 @@
-import type { systemFormValues, FormErrors, UnitSystem } from "~/lib/system-form";
+import type { systemFormValues, FormErrors, UnitSystem } from "~/lib/projects/system-form";
 
 /** What the system form shows: the stored inputs in the user's units, as strings. */
 export type SystemFormValues = ReturnType<typeof systemFormValues>;

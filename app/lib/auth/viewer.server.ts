@@ -1,4 +1,8 @@
-import type { Member } from "./guards.server";
-import type { Viewer } from "../libraries.server";
+// The viewer: who asks (user id), in which workspace (with its plan) and with which role. Every
+// service that reads or writes workspace data takes one; routes build it from the guard's member.
+import type { Member, WorkspaceInfo } from "./guards.server";
+import type { Role } from "./permissions";
+
+export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
 
 export const viewerOf = (m: Member): Viewer => ({ userId: m.user.id, workspace: m.workspace, role: m.role });

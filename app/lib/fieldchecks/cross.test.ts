@@ -5,7 +5,7 @@ import { fluidAt, solveOperatingPoint, createPumpCurve } from "~/engine";
 import { evaluateCheck } from "./evaluate";
 import { parseCheckFields } from "./form";
 import { crossOf, crossSentences } from "./cross";
-import { evaluateSystem } from "../hydraulics";
+import { evaluateSystem } from "../projects/hydraulics";
 import { crossingOf, interpolateAt } from "~/components/chart/scales";
 import { fieldsForHead, frozenFixture, linearPoints } from "~/test/fieldcheck-fixture";
 

@@ -17,7 +17,7 @@ import {
   type PumpCurve,
   type ToleranceGrade,
 } from "~/engine";
-import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../hydraulics";
+import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import type { CheckResult, Pt } from "./result";
 

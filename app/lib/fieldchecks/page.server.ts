@@ -3,7 +3,7 @@
 // prefilled form (or the amended check's fields).
 import { data } from "react-router";
 import { parseId } from "../shared/forms.server";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
 import { checkHistory, getFieldCheck } from "./records.server";
 

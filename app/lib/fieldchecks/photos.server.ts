@@ -6,7 +6,7 @@ import { db } from "@db/client.server";
 import { fieldCheckPhotos } from "@db/schema";
 import { MAX_PHOTO_BYTES, MAX_PHOTOS } from "./form";
 import { getFieldCheck } from "./records.server";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 
 export class PhotoRejected extends Error {}
 

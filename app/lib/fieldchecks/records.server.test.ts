@@ -16,7 +16,7 @@ import * as recordRoute from "~/routes/field.checks.$id";
 import * as photoRoute from "~/routes/field.checks.$id.photos.$photoId";
 import * as csvRoute from "~/routes/field.selections.$id.export-csv";
 import * as shareRoute from "~/routes/projects.$id.share";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 

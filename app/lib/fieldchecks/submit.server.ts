@@ -2,7 +2,7 @@
 // own form (no JavaScript: answered by a redirect) and the phone's send queue (answered in JSON).
 import { EngineInputError } from "~/engine";
 import { formId } from "../shared/forms.server";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 import { gradeById } from "./evaluate";
 import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";

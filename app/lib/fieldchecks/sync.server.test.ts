@@ -12,7 +12,7 @@ import { fieldsForHead, storeSelection } from "~/test/fieldcheck-fixture";
 import * as syncRoute from "~/routes/field.selections.$id.checks";
 import * as pageRoute from "~/routes/field.selections.$id";
 import { shareProject } from "../projects/shares.server";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density; // IAPWS-IF97 water at 20 °C through the engine (common practice)
 const PNG_1PX = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==", "base64");

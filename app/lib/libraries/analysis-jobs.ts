@@ -1,8 +1,8 @@
 // The analysis jobs the server runs on stored uploads — in the analysis worker for big files
-// (app/lib/upload-analysis.server.ts decides), in the calling thread for small ones. Pure.
+// (app/lib/libraries/upload-analysis.server.ts decides), in the calling thread for small ones. Pure.
 import * as v from "valibot";
 import { MappingSchema, type Policy } from "../import";
-import { analyseStored, summarise, type UploadSummary } from "../upload-analysis";
+import { analyseStored, summarise, type UploadSummary } from "./upload-analysis";
 import { planBuffers, planImport, uploadReport, type ImportPlan, type UploadReport } from "./import-plan";
 
 export type AnalysisJob =

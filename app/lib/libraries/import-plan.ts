@@ -1,10 +1,10 @@
 // What an import writes, worked out from the analysis of an upload — in the analysis worker for big
-// files (app/lib/upload-analysis.server.ts), so the main thread never parses or validates them. Pure
+// files (app/lib/libraries/upload-analysis.server.ts), so the main thread never parses or validates them. Pure
 // (no Node, no database). The plan is compact on purpose: points in one Float64Array (five doubles
 // per point: flow, head, efficiency, power, npshr; NaN when absent), curve sets as typed arrays, one
 // entry per model; it crosses to the main thread by transfer, not by copying 100 000 objects.
 import { curveNameOfKey, type CurveSet, type Mapping } from "../import";
-import type { StoredAnalysis } from "../upload-analysis";
+import type { StoredAnalysis } from "./upload-analysis";
 
 export type PlannedModel = {
   name: string;

@@ -11,7 +11,7 @@ import { asc, eq, sql } from "drizzle-orm";
 import { withTransaction } from "@db/client.server";
 import { curveSets, libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
-import { bulkLoad, bulkText, withoutKeyChecks } from "../bulk-load.server";
+import { bulkLoad, bulkText, withoutKeyChecks } from "./bulk-load.server";
 import type { ImportPlan } from "./import-plan";
 import type { ProgressSink } from "./import-progress.server";
 

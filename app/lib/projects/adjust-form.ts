@@ -3,8 +3,8 @@
 // (blank or 0: suggested). Pure: the route validates with AdjustmentSchema through this.
 import * as v from "valibot";
 import { toSI, UNIT_SYSTEMS } from "~/engine";
-import { AdjustmentSchema, type Adjustment } from "../hydraulics";
-import type { UnitSystem } from "../system-form";
+import { AdjustmentSchema, type Adjustment } from "./hydraulics";
+import type { UnitSystem } from "./system-form";
 
 const num = (x: FormDataEntryValue | null) => Number(String(x ?? "").trim().replace(",", "."));
 

@@ -7,10 +7,10 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "@db/client.server";
 import { libraries, workspaces } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries.server";
-import { createProject, createSystem, saveSystem, getSystem } from "../projects.server";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries";
+import { createProject, createSystem, saveSystem, getSystem } from "./projects.server";
 import { clearSearchCaches, preparedCacheStats, searchForSystem } from "./search.server";
-import { defaultSystemInput, type SystemInput } from "../hydraulics";
+import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "../auth/guards.server";
 

@@ -9,9 +9,9 @@ import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { libraries } from "@db/schema";
 import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
-import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, toPumpPoints, type Adjustment, type SystemInput } from "../hydraulics";
-import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries.server";
-import { catalogueOf, getSystem } from "../projects.server";
+import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, toPumpPoints, type Adjustment, type SystemInput } from "./hydraulics";
+import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
+import { catalogueOf, getSystem } from "./projects.server";
 
 export type SearchFilters = {
   type?: string;

@@ -4,7 +4,7 @@ import { and, eq, or } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
 import { projects, projectShares, workspaces } from "@db/schema";
-import type { Viewer } from "../libraries.server";
+import type { Viewer } from "../libraries";
 
 async function ownProject(viewer: Viewer, projectId: number) {
   const [p] = await db().select().from(projects).where(and(eq(projects.id, projectId), eq(projects.workspaceId, viewer.workspace.id)));

@@ -3,8 +3,8 @@
 import Papa from "papaparse";
 import { expect, test } from "vitest";
 import { toCsv } from "./csv";
-import { selectionCsv } from "../selection-export.server";
-import { curvesToCsv, type LibraryCurveSet } from "../libraries.server";
+import { selectionCsv } from "../projects/selection-export.server";
+import { curvesToCsv, type LibraryCurveSet } from "../libraries";
 import { frozenFixture } from "~/test/fieldcheck-fixture";
 
 const EVIL = ["=HYPERLINK(\"http://evil.example\")", "+1+cmd|' /C calc'!A0", "-2+3", "@SUM(A1)", "\t=1", "=a\nb"];

@@ -6,7 +6,7 @@ import { and, desc, eq } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
 import { tracePictures } from "@db/schema";
-import { getOwnLibraryForWrite, insertUpload, MAX_UPLOAD_BYTES, UploadRejected, type Viewer } from "~/lib/libraries.server";
+import { getOwnLibraryForWrite, insertUpload, MAX_UPLOAD_BYTES, UploadRejected, type Viewer } from "~/lib/libraries";
 import { sniffPicture, tracedSource } from "./sniff";
 
 export const MAX_PICTURE_BYTES = MAX_UPLOAD_BYTES;

@@ -2,7 +2,7 @@
 // says so on stdout and waits — so the parent can kill this process or cut its database connection
 // at the worst moment. Run with DATABASE_URL, LIB_ID, USER_ID, WORKSPACE_ID, CSV_PATH.
 import { readFileSync } from "node:fs";
-import { analyseStored, getUpload, importUpload, storeUpload } from "~/lib/libraries.server";
+import { analyseStored, getUpload, importUpload, storeUpload } from "~/lib/libraries";
 
 const viewer = { userId: process.env.USER_ID!, workspace: { id: Number(process.env.WORKSPACE_ID), name: "w", slug: "w", plan: "free" as const }, role: "distributor" as const };
 const libId = Number(process.env.LIB_ID);

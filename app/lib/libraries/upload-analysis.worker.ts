@@ -5,8 +5,8 @@
 // With an upload id instead of bytes, the worker reads the stored bytes itself (its own small pool),
 // so a big blob never passes through the main thread.
 import { parentPort } from "node:worker_threads";
-import { getPool } from "../../db/client.server";
-import { runJob, transferablesOf, type AnalysisJob } from "./libraries/analysis-jobs";
+import { getPool } from "../../../db/client.server";
+import { runJob, transferablesOf, type AnalysisJob } from "./analysis-jobs";
 
 async function storedBytes(uploadId: number): Promise<Uint8Array> {
   const rows = (await getPool().query("SELECT content FROM uploads WHERE id = ?", [uploadId])) as { content: Uint8Array }[];

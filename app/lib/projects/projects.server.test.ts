@@ -3,14 +3,14 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { analyseStored, createLibrary, curvesToCsv, getUpload, importUpload, libraryCurves, storeUpload, updateLibrary, type Viewer } from "./libraries.server";
+import { analyseStored, createLibrary, curvesToCsv, getUpload, importUpload, libraryCurves, storeUpload, updateLibrary, type Viewer } from "../libraries";
 import { addCandidate, adjustCandidate, copyProject, createProject, createSystem, getSelection, listSystems, selectCandidate, systemWorkbench, MAX_CANDIDATES } from "./projects.server";
-import { searchForSystem } from "./projects/search.server";
+import { searchForSystem } from "./search.server";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "./hydraulics";
 import { readSystemForm, systemFormValues } from "./system-form";
-import { analyseCsv } from "./import";
+import { analyseCsv } from "../import";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./auth/guards.server";
+import { workspacesOf } from "../auth/guards.server";
 
 afterAll(() => closeDb());
 

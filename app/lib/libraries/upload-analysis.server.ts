@@ -13,7 +13,7 @@ import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { uploads } from "@db/schema";
 import type { UploadSummary } from "./upload-analysis";
-import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./libraries/analysis-jobs";
+import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./analysis-jobs";
 
 /** Files up to this size are analysed for imports in the calling thread (tens of milliseconds at most). */
 export const OFF_THREAD_BYTES = 256 * 1024;

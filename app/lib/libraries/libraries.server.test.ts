@@ -17,9 +17,9 @@ import {
   updateLibrary,
   UploadRejected,
   type Viewer,
-} from "./libraries.server";
+} from "./index";
 import { makeMember, makeWorkspace, type TestMember } from "~/test/harness";
-import { workspacesOf } from "./auth/guards.server";
+import { workspacesOf } from "../auth/guards.server";
 
 afterAll(() => closeDb());
 

@@ -33,7 +33,7 @@ import {
   type PumpPoint,
   type SystemSpec,
 } from "~/engine";
-import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./projects/energy";
+import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, verdictOnBand, type BandPoint, type MotorFigures } from "./candidate-judgement";
 
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));

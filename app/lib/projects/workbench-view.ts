@@ -1,6 +1,6 @@
 // What the system page and its live preview show: the workbench reduced to plain JSON.
 import type { CandidateEvaluation, SystemEvaluation, Adjustment } from "./hydraulics";
-import type { CandidateEnergy } from "./projects/energy";
+import type { CandidateEnergy } from "./energy";
 
 export type WorkbenchView = {
   evaluation: SystemEvaluation | null;

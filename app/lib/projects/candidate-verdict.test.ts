@@ -4,7 +4,7 @@
 // identities that hold by construction.
 import * as v from "valibot";
 import { describe, expect, it } from "vitest";
-import { generateDemo, type DemoCurve } from "../../fixtures/demo/generate";
+import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
 import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, type CurvePointsIn, type SystemInput } from "./hydraulics";
 import { motorEfficiency, innerDiameter, material } from "~/engine";
 

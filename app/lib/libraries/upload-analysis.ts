@@ -6,7 +6,7 @@ import * as v from "valibot";
 import {
   analyseCsv, curveName, curveNameOfKey, decodeBytes, ENCODINGS, MappingSchema,
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
-} from "./import";
+} from "../import";
 
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;

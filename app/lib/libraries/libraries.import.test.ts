@@ -7,10 +7,10 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { asc, eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { curvePoints, curveSets, libraryRevisions, pumpModels, uploads } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, type Viewer } from "./libraries.server";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, type Viewer } from "./index";
 import { correctedName } from "./upload-fix.server";
 import { call, makeMember, type TestMember } from "~/test/harness";
-import { createApiToken } from "./auth/api-tokens.server";
+import { createApiToken } from "../auth/api-tokens.server";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
 import * as apiUpload from "~/routes/api.v1.libraries.$id.upload";
 

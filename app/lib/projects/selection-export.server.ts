@@ -1,6 +1,6 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./projects.server";
-import { toCsv } from "./shared/csv";
+import { toCsv } from "../shared/csv";
 
 const row = (xs: unknown[]) => xs;
 

@@ -7,12 +7,12 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "@db/client.server";
 import { workspaces } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, listLibraries, storeUpload, updateLibrary, type Viewer } from "./libraries.server";
+import { analyseStored, createLibrary, getUpload, importUpload, listLibraries, storeUpload, updateLibrary, type Viewer } from "../libraries";
 import { createProject, createSystem } from "./projects.server";
-import { searchForSystem } from "./projects/search.server";
+import { searchForSystem } from "./search.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./auth/guards.server";
+import { workspacesOf } from "../auth/guards.server";
 
 afterAll(() => closeDb());
 

@@ -11,12 +11,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as v from "valibot";
 import { closeDb, getPool } from "@db/client.server";
-import { generateDemo } from "../../fixtures/demo/generate";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, UploadRejected, type Viewer } from "./libraries.server";
-import { MappingSchema } from "./import";
+import { generateDemo } from "../../../fixtures/demo/generate";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, UploadRejected, type Viewer } from "./index";
+import { MappingSchema } from "../import";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "./auth/guards.server";
-import { prng } from "../../fixtures/prng";
+import { workspacesOf } from "../auth/guards.server";
+import { prng } from "../../../fixtures/prng";
 
 afterAll(() => closeDb());
 

@@ -1,43 +1,18 @@
-// Pump libraries: listing with the plan gate, uploads kept byte for byte, server-side analysis
-// (never trusting the browser's parse), atomic imports into a new revision, curves for charts.
-import { createHash } from "node:crypto";
-import { and, asc, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
+// Pump libraries: listing through the plan gate (plans.ts), library and revision records, atomic
+// imports of an analysed upload into a new revision, curves for charts and the search.
+import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
 import * as v from "valibot";
 import { db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels, selections, uploads, workspaces, type Visibility } from "@db/schema";
-import { decodeBytes, looksBinary, MappingSchema } from "./import";
+import { MappingSchema } from "../import";
 import { analyseForImport } from "./upload-analysis.server";
-import { runImport } from "./libraries/import-run.server";
-import { can, type Role } from "./auth/permissions";
-import type { WorkspaceInfo } from "./auth/guards.server";
-import { sweepPendingUploads } from "./uploads.server";
-import { toCsv } from "./shared/csv";
-
-export type Viewer = { userId: string; workspace: WorkspaceInfo; role: Role };
-
-/** The paid plan opens every shared library (see the plans issue); the free plan lists them locked. */
-export function planOpensShared(plan: WorkspaceInfo["plan"]): boolean {
-  return plan === "network";
-}
-
-export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
-
-type LibraryRow = typeof libraries.$inferSelect & { ownerName: string };
-
-export type Access = "owner" | "open" | "locked";
-
-/** How `viewer` may see `lib`: owner (full; private only for authors), open (shared and the plan allows), locked (listed, no curves), or null (invisible). */
-export function accessTo(viewer: Viewer, lib: Pick<LibraryRow, "workspaceId" | "visibility">): Access | null {
-  if (!can(viewer.role, "library.read")) return null;
-  if (lib.workspaceId === viewer.workspace.id) {
-    if (lib.visibility === "private" && !can(viewer.role, "library.write")) return null;
-    return "owner";
-  }
-  if (lib.visibility !== "shared") return null;
-  return planOpensShared(viewer.workspace.plan) ? "open" : "locked";
-}
+import { runImport } from "./import-run.server";
+import { can } from "../auth/permissions";
+import type { Viewer } from "../auth/viewer.server";
+import { accessTo } from "./plans";
+import { UploadRejected } from "./uploads.server";
 
 export async function listLibraries(viewer: Viewer) {
   const rows = await db()
@@ -117,65 +92,6 @@ export async function listRevisions(libraryId: number) {
     .from(libraryRevisions)
     .where(eq(libraryRevisions.libraryId, libraryId))
     .orderBy(desc(libraryRevisions.number));
-}
-
-/** Uploads of this library not yet imported (newest first). */
-export async function pendingUploads(libraryId: number) {
-  const rows = await db()
-    .select({ id: uploads.id, filename: uploads.filename, sizeBytes: uploads.sizeBytes, createdAt: uploads.createdAt })
-    .from(uploads)
-    .where(and(eq(uploads.libraryId, libraryId), sql`${uploads.id} NOT IN (SELECT upload_id FROM library_revisions WHERE library_id = ${libraryId} AND upload_id IS NOT NULL)`))
-    .orderBy(desc(uploads.id));
-  return rows;
-}
-
-export class UploadRejected extends Error {}
-
-const TEXT_TYPES = new Set(["text/csv", "text/plain", "application/csv", "application/vnd.ms-excel", "text/tab-separated-values", ""]);
-
-/** Checks size, type and encoding; keeps the original bytes with their SHA-256. */
-export async function storeUpload(viewer: Viewer, libraryId: number, file: File): Promise<number> {
-  const lib = await getOwnLibraryForWrite(viewer, libraryId);
-  if (file.size === 0) throw new UploadRejected(`${file.name || "The file"} is empty.`);
-  if (file.size > MAX_UPLOAD_BYTES) throw new UploadRejected(`${file.name} is ${(file.size / 1048576).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1048576} MB.`);
-  if (!/\.(csv|txt|tsv)$/i.test(file.name) || !TEXT_TYPES.has(file.type)) {
-    throw new UploadRejected(`${file.name} is not a CSV file (expected .csv, .tsv or .txt).`);
-  }
-  const bytes = Buffer.from(await file.arrayBuffer());
-  if (looksBinary(bytes)) throw new UploadRejected(`${file.name} looks like a binary file, not CSV text.`);
-  return insertUpload(viewer, lib.id, file.name, bytes);
-}
-
-/** Keeps bytes as an upload of the library with their SHA-256 (the caller checked the library and the bytes). */
-export async function insertUpload(viewer: Viewer, libraryId: number, filename: string, bytes: Buffer, traced: { source: string; tracePictureId: number } | null = null): Promise<number> {
-  const sha256 = createHash("sha256").update(bytes).digest("hex");
-  await sweepPendingUploads(); // uploads never imported within a day go (issue 14)
-  const [{ id }] = await db()
-    .insert(uploads)
-    .values({ libraryId, filename: filename.slice(0, 255), sizeBytes: bytes.length, sha256, content: bytes, createdBy: viewer.userId || null, ...(traced ?? {}) })
-    .$returningId();
-  return id;
-}
-
-export async function getUpload(viewer: Viewer, libraryId: number, uploadId: number) {
-  const lib = await getOwnLibraryForWrite(viewer, libraryId);
-  const [u] = await db()
-    .select()
-    .from(uploads)
-    .where(and(eq(uploads.id, uploadId), eq(uploads.libraryId, lib.id)));
-  if (!u) throw data("No such upload in this library.", { status: 404 });
-  // decoded only when asked (the import and the API never decode a big file on the main thread)
-  let decoded: ReturnType<typeof decodeBytes> | null = null;
-  return {
-    lib,
-    upload: u,
-    get decoded() {
-      return (decoded ??= decodeBytes(u.content));
-    },
-    get text() {
-      return this.decoded.text;
-    },
-  };
 }
 
 // The analysis of a stored upload is pure and also runs in the mapping page's worker thread: it
@@ -354,66 +270,3 @@ export async function deleteLibrary(viewer: Viewer, libraryId: number): Promise<
   return "deleted";
 }
 
-export type ModelFilters = { q?: string; type?: string; size?: string; speed?: number; flow?: number; head?: number; sort?: "name" | "flow" | "head" };
-
-/** Models of a library's current revision with their curve sets (no points), filtered and sorted. */
-export async function listModels(viewer: Viewer, libraryId: number, f: ModelFilters = {}) {
-  const lib = await getLibrary(viewer, libraryId);
-  if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
-  if (!lib.currentRevisionId) return [];
-  const rows = await db()
-    .select({ m: pumpModels, s: curveSets })
-    .from(pumpModels)
-    .innerJoin(curveSets, eq(curveSets.modelId, pumpModels.id))
-    .where(eq(pumpModels.revisionId, lib.currentRevisionId))
-    .orderBy(asc(pumpModels.name), desc(curveSets.speed), desc(curveSets.impellerDiameter));
-  const byModel = new Map<number, { id: number; name: string; type: string; size: string; curves: { id: number; speed: number | null; impellerDiameter: number | null; flowMax: number; headMax: number; points: number }[] }>();
-  for (const r of rows) {
-    const m = byModel.get(r.m.id) ?? { id: r.m.id, name: r.m.name, type: r.m.type, size: r.m.nominalSize, curves: [] };
-    m.curves.push({ id: r.s.id, speed: r.s.speed, impellerDiameter: r.s.impellerDiameter, flowMax: r.s.flowMax, headMax: r.s.headMax, points: r.s.pointCount });
-    byModel.set(r.m.id, m);
-  }
-  const has = (a: string, b?: string) => !b || a.toLowerCase().includes(b.toLowerCase());
-  let list = [...byModel.values()].filter(
-    (m) =>
-      has(m.name, f.q) &&
-      has(m.type, f.type) &&
-      has(m.size, f.size) &&
-      (!f.speed || m.curves.some((c) => c.speed != null && Math.abs(c.speed - f.speed!) / f.speed! < 0.1)) &&
-      // "Covers the duty": some curve reaches the flow, and its shutoff head is above the head asked.
-      (!f.flow || m.curves.some((c) => c.flowMax >= f.flow!)) &&
-      (!f.head || m.curves.some((c) => c.headMax >= f.head! && (!f.flow || c.flowMax >= f.flow))),
-  );
-  const maxOf = (m: (typeof list)[number], k: "flowMax" | "headMax") => Math.max(...m.curves.map((c) => c[k]));
-  if (f.sort === "flow") list = list.sort((a, b) => maxOf(b, "flowMax") - maxOf(a, "flowMax"));
-  if (f.sort === "head") list = list.sort((a, b) => maxOf(b, "headMax") - maxOf(a, "headMax"));
-  return list;
-}
-
-/** One model with its curves (points included), through the same access rules as its library. */
-export async function getModel(viewer: Viewer, modelId: number) {
-  const [row] = await db()
-    .select({ m: pumpModels, libraryId: libraryRevisions.libraryId, revision: libraryRevisions.number })
-    .from(pumpModels)
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, pumpModels.revisionId))
-    .where(eq(pumpModels.id, modelId));
-  if (!row) throw data("No such pump model in your reach.", { status: 404 });
-  const lib = await getLibrary(viewer, row.libraryId);
-  if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
-  const curves = (await curvesOfRevisions([row.m.revisionId])).filter((c) => c.modelId === row.m.id);
-  return { model: row.m, library: { id: lib.id, name: lib.name, owner: lib.ownerName }, revision: row.revision, curves };
-}
-
-export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
-
-/** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
-export function curvesToCsv(curves: LibraryCurveSet[]): string {
-  const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));
-  const rows: unknown[][] = [EXPORT_HEADER.split(",")];
-  for (const c of curves) {
-    for (const p of c.points) {
-      rows.push([c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)]);
-    }
-  }
-  return toCsv(rows, { newline: "\n" });
-}

@@ -2,7 +2,7 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
-import { energyField, readEnergyForm } from "./projects/energy-form";
+import { energyField, readEnergyForm } from "./energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 export type UnitSystem = "SI" | "US";

@@ -5,7 +5,7 @@ import { data } from "react-router";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
-import { workspaceCurrency } from "./workspaces";
+import { workspaceCurrency } from "../workspaces";
 import {
   AdjustmentSchema,
   DEFAULT_ADJUSTMENT,
@@ -20,8 +20,8 @@ import {
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
-import { candidateEnergy, type CandidateEnergy } from "./projects/energy";
-import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
+import { candidateEnergy, type CandidateEnergy } from "./energy";
+import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 
 export const MAX_CANDIDATES = 6;
 const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });

@@ -1,9 +1,10 @@
 // Fix in the browser: corrected cells of flagged rows → a corrected copy of the upload, kept as a
 // new upload beside the original (both with their SHA-256), which the mapping page then checks
 // again on the server. Only members who may edit the library get here (getUpload checks it).
-import { applyCellEdits, EditRefused, sniffCsv, type CellEdit, type Encoding } from "./import";
-import { decodeBytes } from "./import";
-import { getUpload, insertUpload, UploadRejected, MAX_UPLOAD_BYTES, type Viewer } from "./libraries.server";
+import { applyCellEdits, EditRefused, sniffCsv, type CellEdit, type Encoding } from "../import";
+import { decodeBytes } from "../import";
+import type { Viewer } from "../auth/viewer.server";
+import { getUpload, insertUpload, UploadRejected, MAX_UPLOAD_BYTES } from "./uploads.server";
 
 /** The corrected file's name: "pumps.csv" → "pumps.corrected.csv" (again: "pumps.corrected-2.csv"). */
 export function correctedName(filename: string): string {
