@@ -38,30 +38,12 @@ export interface PipeTable {
   sizes: readonly PipeSize[];
 }
 
+import { buildPipeTable } from "./pipe-table.ts";
+
 const IN = 0.0254;
 
-function table(
-  id: string,
-  name: string,
-  standard: string,
-  material: string,
-  source: string,
-  rows: readonly (readonly [string, number, number])[],
-  liningIn: (nominal: string) => number = () => 0,
-): PipeTable {
-  return {
-    id,
-    name,
-    standard,
-    material,
-    source,
-    sizes: rows.map(([nominal, odIn, wallIn]) => ({
-      nominal,
-      outsideDiameter: odIn * IN,
-      wall: wallIn * IN,
-      innerDiameter: (odIn - 2 * wallIn - 2 * liningIn(nominal)) * IN,
-    })),
-  };
+function table(id: string, name: string, standard: string, material: string, source: string, rows: readonly (readonly [string, number, number])[], lining?: (nominal: string, od: number) => number): PipeTable {
+  return buildPipeTable({ id, name, standard, material, source }, rows, IN, lining);
 }
 
 // NPS outside diameters, in (ASME B36.10M; shared by ASTM D1785 PVC).

@@ -6,31 +6,12 @@
  * Valid only for the sizes listed: any other size is refused (EngineInputError in `innerDiameter`).
  */
 import type { PipeTable } from "./pipes.ts";
+import { buildPipeTable } from "./pipe-table.ts";
 
 const MM = 1e-3;
 
-function dnTable(
-  id: string,
-  name: string,
-  standard: string,
-  material: string,
-  source: string,
-  rows: readonly (readonly [string, number, number])[],
-  liningMm: (odMm: number) => number = () => 0,
-): PipeTable {
-  return {
-    id,
-    name,
-    standard,
-    material,
-    source,
-    sizes: rows.map(([nominal, od, wall]) => ({
-      nominal,
-      outsideDiameter: od * MM,
-      wall: wall * MM,
-      innerDiameter: (od - 2 * wall - 2 * liningMm(od)) * MM,
-    })),
-  };
+function dnTable(id: string, name: string, standard: string, material: string, source: string, rows: readonly (readonly [string, number, number])[], lining?: (nominal: string, od: number) => number): PipeTable {
+  return buildPipeTable({ id, name, standard, material, source }, rows, MM, lining);
 }
 
 // EN 10255 medium series (M), non-alloy steel tubes for welding and threading (the former BS 1387
@@ -86,7 +67,7 @@ const EN545: readonly (readonly [string, number, number])[] = [
   ["DN250", 274, 5.5], ["DN300", 326, 6.2], ["DN350", 378, 6.3], ["DN400", 429, 6.5], ["DN450", 480, 6.9],
   ["DN500", 532, 7.5], ["DN600", 635, 8.7], ["DN700", 738, 8.8], ["DN800", 842, 9.6],
 ];
-const en545Lining = (od: number) => (od <= 326 ? 3 : od <= 635 ? 5 : 6);
+const en545Lining = (_nominal: string, od: number) => (od <= 326 ? 3 : od <= 635 ? 5 : 6);
 
 /** The DN tables, grouped by `standard` in the editor. */
 export const DN_TABLES: readonly PipeTable[] = [
