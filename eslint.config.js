@@ -6,7 +6,7 @@ import reactHooks from "eslint-plugin-react-hooks";
 import globals from "globals";
 
 // Layering rules (below) and the files they leave alone.
-const TEST_AND_SCRIPTS = ["**/*.test.ts", "**/*.test.tsx", "app/test/**", "app/bench/**", "app/cli/**", "app/engine/test/**", "app/lib/import/test-helpers.ts", "app/lib/**/test-kit.ts"];
+const TEST_AND_SCRIPTS = ["**/*.test.ts", "**/*.test.tsx", "app/test/**", "app/bench/**", "app/cli/**", "app/engine/test/**", "app/lib/import/test-helpers.ts", "app/lib/**/test-kit.ts", "app/components/chart/test-pumps.ts"];
 const NO_FIXTURES = { group: ["**/fixtures/*", "**/fixtures/**"], message: "The app's runtime code imports nothing from fixtures/ (test data and stand-ins)." };
 const NO_SERVER_MODULES = { group: ["*.server", "**/*.server", "**/*.server.ts", "**/*.server.tsx"], message: "Components run in the browser: no .server module (not even for a type: move the type beside the component or to a shared module)." };
 const NO_DB = { group: ["@db/*", "**/db/*"], message: "Only services (*.server.ts) reach the database." };

@@ -2,16 +2,9 @@
 // reloads its data every 1.5 s with JavaScript; without, a refresh link does the same.
 import { useEffect } from "react";
 import { useRevalidator } from "react-router";
+import type { ImportView } from "~/lib/libraries/import-view";
 
-export type ImportRow = {
-  id: number;
-  status: "running" | "done" | "failed" | "stopped";
-  pointsTotal: number;
-  pointsWritten: number;
-  revisionNumber: number | null;
-  message: string;
-  createdAt: string;
-};
+export type ImportRow = Omit<ImportView, "uploadId">;
 
 const STATUS: Record<ImportRow["status"], string> = { running: "running", done: "imported", failed: "failed", stopped: "stopped" };
 

@@ -23,7 +23,8 @@ import {
   valueToDisplay,
 } from "./scales.ts";
 import { sampleProps } from "./sample.ts";
-import type { DutyChartProps, PumpSeries } from "./types.ts";
+import { linePump } from "./test-pumps.ts";
+import type { DutyChartProps } from "./types.ts";
 
 const render = (p: DutyChartProps) => renderToStaticMarkup(createElement(DutyChart, p));
 const count = (html: string, needle: string) => html.split(needle).length - 1;
@@ -35,16 +36,6 @@ function section(html: string, attr: string, tag: string): string {
   return html.slice(i, j);
 }
 
-/** A straight head line 40 m at 0 → 20 m at 0.2 m³/s: 30 m at 0.1 m³/s by construction. */
-const linePump = (over: Partial<PumpSeries> = {}): PumpSeries => ({
-  id: "p1",
-  label: "Line pump",
-  head: [
-    { flow: 0, y: 40 },
-    { flow: 0.2, y: 20 },
-  ],
-  ...over,
-});
 
 const base = (over: Partial<DutyChartProps> = {}): DutyChartProps => ({
   unitSystem: "SI",

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { buildChartModel, type ChartModelInput } from "./model.ts";
-import type { PumpSeries } from "./types.ts";
+import { linePump } from "./test-pumps.ts";
 import {
   OUTSIDE_PX,
   cursorDisplayFlow,
@@ -17,15 +17,6 @@ import {
 } from "./useChartCursor.ts";
 
 const H = 3600; // m³/h per m³/s (SI definition of the hour)
-const linePump = (over: Partial<PumpSeries> = {}): PumpSeries => ({
-  id: "p1",
-  label: "Line pump",
-  head: [
-    { flow: 0, y: 40 },
-    { flow: 0.2, y: 20 },
-  ],
-  ...over,
-});
 const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: "SI", pumps: [linePump()], ...over });
 
 describe("geometry the checks rely on (model, by construction)", () => {

@@ -7,6 +7,7 @@
 import { and, desc, eq, sql } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { imports } from "@db/schema";
+import type { ImportView } from "./import-view";
 
 /** Called with the number of points handed to the server so far. */
 export type ProgressSink = (pointsWritten: number) => void;
@@ -69,16 +70,7 @@ export async function failImportRow(importId: number, message: string) {
     .where(eq(imports.id, importId));
 }
 
-export type ImportView = {
-  id: number;
-  uploadId: number | null;
-  status: "running" | "done" | "failed" | "stopped";
-  pointsTotal: number;
-  pointsWritten: number;
-  revisionNumber: number | null;
-  message: string;
-  createdAt: string;
-};
+export type { ImportView };
 
 function view(r: typeof imports.$inferSelect, now = Date.now()): ImportView {
   const stale = r.status === "running" && now - r.updatedAt.getTime() > STALE_AFTER_MS;
