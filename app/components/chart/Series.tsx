@@ -40,25 +40,8 @@ export function SystemCurve({ model, panel }: Pick<LayerProps, "model" | "panel"
 }
 
 /** Each shown pump's head curve. */
-export function PumpHeadCurves({ model, panel, pumps, opacityOf }: LayerProps) {
-  return (
-    <>
-      {pumps.map((p) => (
-        <path
-          key={`h-${p.id}`}
-          data-series="pump-head"
-          data-pump-id={p.id}
-          d={linePath(p.head, model.x, panel.y)}
-          fill="none"
-          stroke={p.color}
-          strokeWidth={2.25}
-          strokeDasharray={p.adjusted ? DASH_ADJUSTED : undefined}
-          strokeLinejoin="round"
-          opacity={opacityOf(p.id)}
-        />
-      ))}
-    </>
-  );
+export function PumpHeadCurves(props: LayerProps) {
+  return <PumpCurves {...props} kind="head" width={2.25} />;
 }
 
 /** NPSHa on the NPSH panel (dashed, system colour). */
@@ -77,21 +60,26 @@ export function NpshaCurve({ model, panel }: Pick<LayerProps, "model" | "panel">
 }
 
 /** Each shown pump's curve on an efficiency, power or NPSH panel (pumps without data skipped). */
-export function PumpPanelCurves({ model, panel, pumps, opacityOf }: LayerProps) {
+export function PumpPanelCurves(props: LayerProps) {
+  return <PumpCurves {...props} kind={props.panel.kind} width={2} />;
+}
+
+/** One path per pump for one kind of curve (head on the head panel, else the panel's own). */
+function PumpCurves({ model, panel, pumps, opacityOf, kind, width }: LayerProps & { kind: PanelLayout["kind"]; width: number }) {
   return (
     <>
       {pumps.map((p) => {
-        const s = pumpSeries(p, panel.kind);
+        const s = pumpSeries(p, kind);
         if (s.length === 0) return null;
         return (
           <path
-            key={`${panel.kind}-${p.id}`}
-            data-series={`pump-${panel.kind}`}
+            key={`${kind === "head" ? "h" : kind}-${p.id}`}
+            data-series={`pump-${kind}`}
             data-pump-id={p.id}
             d={linePath(s, model.x, panel.y)}
             fill="none"
             stroke={p.color}
-            strokeWidth={2}
+            strokeWidth={width}
             strokeDasharray={p.adjusted ? DASH_ADJUSTED : undefined}
             strokeLinejoin="round"
             opacity={opacityOf(p.id)}

@@ -63,16 +63,13 @@ export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibratio
           <select className="field w-auto" value={s.flowUnit} aria-label="Flow unit" onChange={(e) => set((x) => ({ ...x, flowUnit: e.target.value as Unit }))}>
             {UNITS.flow.map((u) => <option key={u}>{u}</option>)}
           </select>
-          <select className="field w-auto" value={s.flowScale} aria-label="Flow axis scale" onChange={(e) => set((x) => ({ ...x, flowScale: e.target.value as "linear" | "log" }))}>
-            <option value="linear">linear</option>
-            <option value="log">logarithmic</option>
-          </select>
+          <ScaleSelect value={s.flowScale} label="Flow axis scale" onChange={(v) => set((x) => ({ ...x, flowScale: v }))} />
         </div>
         <RefRows
           refs={s.xRefs}
           axis="x"
           testid="xref"
-          onValue={(i, v) => set((x) => ({ ...x, xRefs: x.xRefs.map((r, j) => (j === i ? { ...r, value: v } : r)) }))}
+          onValue={(i, v) => set((x) => ({ ...x, xRefs: withValue(x.xRefs, i, v) }))}
           onRemove={(i) => set((x) => ({ ...x, xRefs: x.xRefs.filter((_, j) => j !== i) }))}
         />
       </div>
@@ -94,16 +91,13 @@ export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibratio
             <select className="field w-auto" value={p.unit} aria-label={`Panel ${p.id} unit`} onChange={(e) => setPanel(p.id, (q) => ({ ...q, unit: e.target.value as Unit }))}>
               {UNITS[p.quantity].map((u) => <option key={u}>{u}</option>)}
             </select>
-            <select className="field w-auto" value={p.scale} aria-label={`Panel ${p.id} scale`} onChange={(e) => setPanel(p.id, (q) => ({ ...q, scale: e.target.value as "linear" | "log" }))}>
-              <option value="linear">linear</option>
-              <option value="log">logarithmic</option>
-            </select>
+            <ScaleSelect value={p.scale} label={`Panel ${p.id} scale`} onChange={(v) => setPanel(p.id, (q) => ({ ...q, scale: v }))} />
           </div>
           <RefRows
             refs={p.refs}
             axis="y"
             testid={`yref-${p.id}`}
-            onValue={(i, v) => setPanel(p.id, (q) => ({ ...q, refs: q.refs.map((r, j) => (j === i ? { ...r, value: v } : r)) }))}
+            onValue={(i, v) => setPanel(p.id, (q) => ({ ...q, refs: withValue(q.refs, i, v) }))}
             onRemove={(i) => setPanel(p.id, (q) => ({ ...q, refs: q.refs.filter((_, j) => j !== i) }))}
           />
           <Residual cal={props.cals.get(p.id)} />
@@ -193,4 +187,19 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
       </p>
     </section>
   );
+}
+
+/** Linear or logarithmic axis. */
+function ScaleSelect({ value, label, onChange }: { value: "linear" | "log"; label: string; onChange: (v: "linear" | "log") => void }) {
+  return (
+    <select className="field w-auto" value={value} aria-label={label} onChange={(e) => onChange(e.target.value as "linear" | "log")}>
+      <option value="linear">linear</option>
+      <option value="log">logarithmic</option>
+    </select>
+  );
+}
+
+/** The reference list with the i-th reference's value replaced. */
+function withValue<R extends { value: V }, V>(refs: R[], i: number, value: V): R[] {
+  return refs.map((r, j) => (j === i ? { ...r, value } : r));
 }
