@@ -2,6 +2,7 @@
 // Works without JavaScript: every field posts; the step rows are fixed (blank rows are ignored).
 import { CONTROL_MODES, CIRCULATOR_PROFILE_SOURCE, defaultCirculatorProfile } from "~/engine";
 import { MAX_PROFILE_STEPS, type EnergySettings } from "~/lib/projects/energy";
+import { NumberField } from "./NumberField";
 
 const pctText = (x: number) => String(Math.round(x * 10000) / 100);
 
@@ -68,27 +69,9 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         </table>
       </fieldset>
       <div className="grid grid-cols-3 gap-2">
-        <div>
-          <label className="label" htmlFor="f-energy.years">
-            Years
-          </label>
-          <input id="f-energy.years" name="energy.years" inputMode="numeric" className="field" defaultValue={String(energy.years)} />
-          {err("energy.years")}
-        </div>
-        <div>
-          <label className="label" htmlFor="f-energy.escalation">
-            Tariff escalation (% per year)
-          </label>
-          <input id="f-energy.escalation" name="energy.escalation" inputMode="decimal" className="field" defaultValue={pctText(energy.escalation)} />
-          {err("energy.escalation")}
-        </div>
-        <div>
-          <label className="label" htmlFor="f-energy.discount">
-            Discount rate (% per year)
-          </label>
-          <input id="f-energy.discount" name="energy.discount" inputMode="decimal" className="field" defaultValue={pctText(energy.discountRate)} />
-          {err("energy.discount")}
-        </div>
+        <NumberField label="Years" name="energy.years" def={String(energy.years)} errors={errors} inputMode="numeric" />
+        <NumberField label="Tariff escalation (% per year)" name="energy.escalation" def={pctText(energy.escalation)} errors={errors} />
+        <NumberField label="Discount rate (% per year)" name="energy.discount" def={pctText(energy.discountRate)} errors={errors} />
       </div>
       <p className="text-xs text-slate-500">
         Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.

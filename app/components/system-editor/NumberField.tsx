@@ -2,7 +2,7 @@
 // reader's error under it (linked by aria-describedby), else the hint.
 import type { FormErrors } from "~/lib/projects/system-form";
 
-export function NumberField({ label, name, def, errors, unit, hint, wide, placeholder }: { label: string; name: string; def: string; errors: FormErrors; unit?: string; hint?: string; wide?: boolean; placeholder?: string }) {
+export function NumberField({ label, name, def, errors, unit, hint, wide, placeholder, inputMode = "decimal" }: { label: string; name: string; def: string; errors: FormErrors; unit?: string; hint?: string; wide?: boolean; placeholder?: string; inputMode?: "decimal" | "numeric" }) {
   const id = `f-${name}`;
   const err = errors[name];
   return (
@@ -11,7 +11,7 @@ export function NumberField({ label, name, def, errors, unit, hint, wide, placeh
         {label}
         {unit ? <span className="ml-1 font-normal normal-case text-slate-500">({unit})</span> : null}
       </label>
-      <input id={id} name={name} defaultValue={def} placeholder={placeholder} inputMode="decimal" className="field" aria-invalid={err ? true : undefined} aria-describedby={err ? `${id}-err` : undefined} />
+      <input id={id} name={name} defaultValue={def} placeholder={placeholder} inputMode={inputMode} className="field" aria-invalid={err ? true : undefined} aria-describedby={err ? `${id}-err` : undefined} />
       {err ? (
         <p id={`${id}-err`} className="text-xs text-fail" role="alert">
           {err}
