@@ -1,0 +1,13 @@
+// What every domain uses, public face for loaders, actions and scripts (server only: it re-exports
+// `.server` modules; browser code imports the pure files by path: `csv`, `constants`). Input reading
+// (forms.server), the one CSV writer (csv), settings (env.server), problem+json (problem.server,
+// api-errors.server), rate limits, health, the lists the schema shares (constants). `body-limits.mjs`
+// is read by `app/serve.mjs` too and is imported by path.
+export * from "./forms.server";
+export * from "./csv";
+export * from "./env.server";
+export * from "./problem.server";
+export * from "./api-errors.server";
+export * from "./ratelimit.server";
+export * from "./health.server";
+export * from "./constants";
