@@ -370,7 +370,7 @@ export const projects = mysqlTable(
   (t) => [index("projects_ws_idx").on(t.workspaceId)],
 );
 
-/** One pumped circuit; its inputs are one JSON document validated by SystemInputSchema (app/lib/system-input.ts), SI units. */
+/** One pumped circuit; its inputs are one JSON document validated by SystemInputSchema (app/lib/projects/system-input.ts), SI units. */
 export const systems = mysqlTable(
   "systems",
   {

@@ -1,0 +1,36 @@
+// A candidate as stored: how it is run (adjustment: speed or trim, arrangement, motor), its curve
+// points from the database and what its model publishes for the catalogue rule. Pure.
+import * as v from "valibot";
+import { DEFAULT_IE_CLASS, IE_CLASSES, type PumpPoint } from "~/engine";
+
+export const AdjustmentSchema = v.object({
+  method: v.picklist(["none", "speed", "trim"]),
+  /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁; null: solve it to hit the duty. */
+  ratio: v.nullable(v.pipe(v.number(), v.finite(), v.minValue(0.3), v.maxValue(1.2))),
+  arrangement: v.picklist(["single", "parallel", "series"]),
+  dutyPumps: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(8)),
+  standbyPumps: v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(8)),
+  /** Motor rating W (0: not set) and service factor. */
+  motorRating: v.pipe(v.number(), v.finite(), v.minValue(0)),
+  serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1), v.maxValue(1.5)),
+  /** Motor efficiency class (IEC 60034-30-1); adjustments stored before it parse as IE3. */
+  ieClass: v.optional(v.picklist(IE_CLASSES), DEFAULT_IE_CLASS),
+});
+export type Adjustment = v.InferOutput<typeof AdjustmentSchema>;
+export const DEFAULT_ADJUSTMENT: Adjustment = { method: "none", ratio: null, arrangement: "single", dutyPumps: 1, standbyPumps: 0, motorRating: 0, serviceFactor: 1, ieClass: DEFAULT_IE_CLASS };
+
+export type CurvePointsIn = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
+
+/** What the model publishes, for the catalogue rule (SI; null when not known). */
+export type CatalogueData = { impellerMin: number | null; impellerMax: number | null; ratedSpeed: number | null };
+
+/** Stored curve points (nullable columns) as engine points (absent columns left out). */
+export function toPumpPoints(points: CurvePointsIn): PumpPoint[] {
+  return points.map((p) => {
+    const o: PumpPoint = { flow: p.flow, head: p.head };
+    if (p.efficiency != null) o.efficiency = p.efficiency;
+    if (p.power != null) o.power = p.power;
+    if (p.npshr != null) o.npshr = p.npshr;
+    return o;
+  });
+}

@@ -1,0 +1,198 @@
+// The engineer's system as stored and edited: one JSON document per system (SI units), its valibot
+// schema, the defaults of a new system and run, and what the engine needs from it (fluid, system
+// spec, the flow range to draw). Pure.
+import * as v from "valibot";
+import { fluidAt, material as materialOf, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
+import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
+import type { Adjustment } from "./candidate-input";
+
+const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
+const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
+const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be greater than zero.`));
+
+export const FittingUseSchema = v.object({
+  id: v.pipe(v.string(), v.maxLength(60)),
+  count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(500)),
+});
+
+export const PipeRunSchema = v.object({
+  side: v.picklist(["suction", "discharge"]),
+  name: v.pipe(v.string(), v.maxLength(80)),
+  /** Catalogue table and nominal size; empty when the inner diameter is typed. */
+  pipeTable: v.pipe(v.string(), v.maxLength(40)),
+  nominal: v.pipe(v.string(), v.maxLength(20)),
+  /** Inner diameter, m. */
+  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, "Inner diameter above 5 m? Check the unit.")),
+  material: v.pipe(v.string(), v.maxLength(40)),
+  /** Absolute roughness new and aged, m. */
+  roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, "Roughness above 50 mm? Check the unit.")),
+  agedRoughness: v.pipe(nonNeg("Aged roughness"), v.maxValue(0.05, "Aged roughness above 50 mm? Check the unit.")),
+  /** Length, m. */
+  length: v.pipe(nonNeg("Length"), v.maxValue(1e6, "Length above 1000 km? Check the unit.")),
+  fittings: v.pipe(v.array(FittingUseSchema), v.maxLength(40)),
+  /** Extra ΣK (dimensionless): entrance, exit, equipment given as K. */
+  extraK: v.pipe(nonNeg("Extra K"), v.maxValue(1e4)),
+});
+
+export const SystemInputSchema = v.object({
+  fluid: v.variant("kind", [
+    v.object({ kind: v.literal("water") }),
+    v.object({
+      kind: v.literal("custom"),
+      name: v.pipe(v.string(), v.maxLength(60)),
+      density: pos("Density"), // kg/m³
+      dynamicViscosity: pos("Viscosity"), // Pa·s
+      vaporPressure: nonNeg("Vapour pressure"), // Pa
+    }),
+  ]),
+  temperatureC: v.pipe(num("Temperature"), v.minValue(-50, "Temperature below −50 °C?"), v.maxValue(300, "Temperature above 300 °C?")),
+  mode: v.picklist(["open", "closed-loop"]),
+  /** Discharge surface minus suction surface elevation, least and most lift, m. */
+  staticLow: num("Static head (low level)"),
+  staticHigh: num("Static head (high level)"),
+  /** Discharge surface pressure minus suction surface pressure (gauge), Pa. */
+  pressureDifference: num("Pressure difference"),
+  /** Closed loop: head held at the control point, m. */
+  controlHead: nonNeg("Control head"),
+  /** Absolute pressure on the suction surface, Pa (atmospheric for an open tank). */
+  suctionSurfacePressure: pos("Suction surface pressure"),
+  /** Suction liquid surface above the pump centreline, m (negative: suction lift). */
+  suctionStaticHead: num("Suction static head"),
+  runs: v.pipe(v.array(PipeRunSchema), v.maxLength(40, "At most 40 pipe runs.")),
+  duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
+  /** Largest flow drawn, m³/s (0: from the duty). */
+  flowMax: nonNeg("Largest flow"),
+  hoursPerYear: v.pipe(nonNeg("Operating hours"), v.maxValue(8784, "A year has at most 8784 hours.")),
+  tariffPerKWh: nonNeg("Energy tariff"),
+  /** Required NPSH margin ratio NPSHa/NPSHr (dimensionless). */
+  npshMargin: v.pipe(num("NPSH margin"), v.minValue(1, "The NPSH margin ratio is at least 1.")),
+  /** Duty flow tolerance, fractions of the duty flow (default −0/+0.10; documents stored before it parse with the default). */
+  flowTolerance: v.optional(
+    v.object({
+      minus: v.pipe(nonNeg("Flow tolerance below"), v.maxValue(0.5, "Flow tolerance below the duty: at most 50 %.")),
+      plus: v.pipe(nonNeg("Flow tolerance above"), v.maxValue(1, "Flow tolerance above the duty: at most 100 %.")),
+    }),
+    { ...DEFAULT_FLOW_TOLERANCE },
+  ),
+  /** Load profile, control mode and life-cycle cost settings (documents stored before them parse with the defaults). */
+  energy: v.optional(EnergySettingsSchema, () => ({ ...DEFAULT_ENERGY_SETTINGS })),
+});
+
+export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
+export type PipeRunInput = v.InferOutput<typeof PipeRunSchema>;
+
+export function newRun(side: "suction" | "discharge", name: string): PipeRunInput {
+  const m = materialOf("steel");
+  return {
+    side,
+    name,
+    pipeTable: "",
+    nominal: "",
+    diameter: 0.1,
+    material: "steel",
+    roughness: m.roughnessNew,
+    agedRoughness: m.roughnessAged,
+    length: 10,
+    fittings: [],
+    extraK: 0,
+  };
+}
+
+export function defaultSystemInput(): SystemInput {
+  return {
+    fluid: { kind: "water" },
+    temperatureC: 20,
+    mode: "open",
+    staticLow: 10,
+    staticHigh: 12,
+    pressureDifference: 0,
+    controlHead: 0,
+    suctionSurfacePressure: STANDARD_ATMOSPHERE,
+    suctionStaticHead: 2,
+    runs: [
+      { ...newRun("suction", "Suction line"), length: 5, fittings: [{ id: "entrance-sharp", count: 1 }, { id: "gate-valve-open", count: 1 }] },
+      { ...newRun("discharge", "Rising main"), length: 60, fittings: [{ id: "elbow-90-standard", count: 4 }, { id: "swing-check", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "exit", count: 1 }] },
+    ],
+    duty: { flow: 0.01, head: 15 },
+    flowMax: 0,
+    hoursPerYear: 4000,
+    tariffPerKWh: 0.2,
+    npshMargin: 1.1,
+    flowTolerance: { ...DEFAULT_FLOW_TOLERANCE },
+    energy: { ...DEFAULT_ENERGY_SETTINGS },
+  };
+}
+
+export function fluidOf(input: SystemInput): Fluid {
+  return input.fluid.kind === "water"
+    ? fluidAt({ kind: "water" }, input.temperatureC)
+    : fluidAt(
+        { kind: "custom", name: input.fluid.name || "Custom fluid", density: input.fluid.density, dynamicViscosity: input.fluid.dynamicViscosity, vaporPressure: input.fluid.vaporPressure },
+        input.temperatureC,
+      );
+}
+
+function runSpec(r: PipeRunInput): PipeRunSpec {
+  return {
+    name: r.name,
+    length: r.length,
+    diameter: r.diameter,
+    roughness: r.roughness,
+    agedRoughness: Math.max(r.agedRoughness, r.roughness),
+    minorK: r.extraK,
+    fittings: r.fittings.filter((f) => f.count > 0),
+    nominal: r.pipeTable.startsWith("steel") ? r.nominal : undefined,
+  };
+}
+
+export function systemSpec(input: SystemInput): SystemSpec {
+  const lo = Math.min(input.staticLow, input.staticHigh);
+  const hi = Math.max(input.staticLow, input.staticHigh);
+  return {
+    fluid: fluidOf(input),
+    suction: input.runs.filter((r) => r.side === "suction").map(runSpec),
+    discharge: input.runs.filter((r) => r.side === "discharge").map(runSpec),
+    mode: input.mode,
+    staticHead: input.mode === "open" ? { min: lo, max: hi, nominal: (lo + hi) / 2 } : 0,
+    pressureDifference: input.mode === "open" ? input.pressureDifference : 0,
+    controlHead: input.mode === "closed-loop" ? input.controlHead : undefined,
+  };
+}
+
+export function flowMaxOf(input: SystemInput, pumpFlowMax = 0): number {
+  if (input.flowMax > 0) return input.flowMax;
+  const fromDuty = input.duty ? input.duty.flow * 1.6 : 0;
+  return Math.max(fromDuty, pumpFlowMax * 1.05, 1e-4);
+}
+
+/**
+ * Largest flow one candidate can reach, m³/s: its own curve's last flow × its own duty pumps in
+ * parallel × its speed ratio when above 1 (affinity laws, Q ∝ N). Trims only shorten the curve.
+ */
+export function candidateFlowEnd(c: { set: { points: readonly { flow: number }[] }; adjustment: Adjustment }): number {
+  const end = c.set.points[c.set.points.length - 1]?.flow ?? 0;
+  const a = c.adjustment;
+  const n = a.arrangement === "parallel" ? a.dutyPumps : 1;
+  const r = a.method === "speed" && a.ratio != null ? Math.max(1, a.ratio) : 1;
+  return Number.isFinite(end) && end > 0 ? end * n * r : 0;
+}
+
+/** Largest flow any of the candidates reaches, each with its own arrangement (never one pump's curve × another's pump count). */
+export function candidatesFlowMax(cands: readonly { set: { points: readonly { flow: number }[] }; adjustment: Adjustment }[]): number {
+  return cands.reduce((m, c) => Math.max(m, candidateFlowEnd(c)), 0);
+}
+
+/**
+ * Flow range for a chart or report of one evaluated candidate, m³/s: its evaluated (adjusted,
+ * combined) curve's end and its operating points, with the duty (see flowMaxOf); other
+ * candidates never widen it.
+ */
+export function resultFlowMax(input: SystemInput, result: { curve: readonly { flow: number }[]; operating: { flow: number } | null; allIntersections?: readonly { flow: number }[] } | null): number {
+  let pump = 0;
+  if (result) {
+    for (const p of [result.curve[result.curve.length - 1], result.operating, ...(result.allIntersections ?? [])]) {
+      if (p && Number.isFinite(p.flow) && p.flow > pump) pump = p.flow;
+    }
+  }
+  return flowMaxOf(input, pump);
+}
