@@ -11,7 +11,7 @@ import { and, desc, eq, inArray, or, sql } from "drizzle-orm";
 import { data } from "react-router";
 import { db, withTransaction } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
-import type { FrozenSelection } from "../projects/projects.server";
+import type { FrozenSelection } from "../projects/selections.server";
 import type { Viewer } from "../libraries";
 import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";

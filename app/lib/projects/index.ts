@@ -2,6 +2,7 @@
 // only: it re-exports `.server` modules; browser code imports the pure files by path: hydraulics,
 // system-form, workbench-view, search-view, candidate-judgement, energy, energy-form, adjust-form).
 export * from "./projects.server";
+export * from "./selections.server";
 export * from "./shares.server";
 export * from "./search.server";
 export * from "./systems-api.server";

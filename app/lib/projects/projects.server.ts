@@ -1,10 +1,10 @@
-// Projects, systems, candidates and selections. Every read and write is scoped to the caller's
+// Projects, systems and candidates (selections: selections.server.ts). Every read and write is scoped to the caller's
 // workspace; ids from elsewhere answer 404, never data.
-import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
 import { data } from "react-router";
 import * as v from "valibot";
-import { db, withTransaction } from "@db/client.server";
-import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
+import { affectedRows as affected, db, withTransaction } from "@db/client.server";
+import { candidates, curveSets, libraries, libraryRevisions, projects, selections, systems } from "@db/schema";
 import { workspaceCurrency } from "../workspaces";
 import {
   AdjustmentSchema,
@@ -24,8 +24,7 @@ import { candidateEnergy, type CandidateEnergy } from "./energy";
 import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 
 export const MAX_CANDIDATES = 6;
-const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
-const affected = (r: unknown) => Number((r as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0);
+export const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
 
 // ── Projects ────────────────────────────────────────────────────────────────────────────────
 export async function listProjects(viewer: Viewer, opts: { archived?: boolean } = {}) {
@@ -237,7 +236,7 @@ export async function addCandidate(viewer: Viewer, systemId: number, curveSetId:
   });
 }
 
-async function ownCandidate(viewer: Viewer, candidateId: number) {
+export async function ownCandidate(viewer: Viewer, candidateId: number) {
   const [row] = await db()
     .select({ c: candidates })
     .from(candidates)
@@ -304,97 +303,3 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
   impellerMax: s.impellerMax ?? null,
   ratedSpeed: s.ratedSpeed ?? null,
 });
-
-// ── Duty-point search: app/lib/projects/search.server.ts ───────────────────────────────────
-
-// ── Selections ──────────────────────────────────────────────────────────────────────────────
-export const SELECTION_FORMAT = "dutymark-selection/1";
-
-/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
-export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
-  const c = await ownCandidate(viewer, candidateId);
-  const bench = await systemWorkbench(viewer, c.systemId);
-  const cand = bench.candidates.find((x) => x.id === c.id);
-  if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
-  const [rev] = await db()
-    .select({ revisionId: curveSets.revisionId, number: libraryRevisions.number, libraryId: libraries.id, libraryName: libraries.name, modelType: pumpModels.type, modelSize: pumpModels.nominalSize })
-    .from(curveSets)
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
-    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
-    .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
-    .where(eq(curveSets.id, c.curveSetId));
-  const frozen = {
-    format: SELECTION_FORMAT,
-    frozenAt: new Date().toISOString(),
-    project: { id: bench.system.projectId, name: bench.system.projectName },
-    system: { id: bench.system.id, name: bench.system.name, input: bench.system.input },
-    systemCurve: bench.evaluation,
-    pump: {
-      label: cand.label,
-      model: cand.model,
-      type: rev?.modelType ?? "",
-      size: rev?.modelSize ?? "",
-      library: { id: rev?.libraryId, name: rev?.libraryName, revision: rev?.number, revisionId: rev?.revisionId },
-      curveSetId: c.curveSetId,
-      speed: cand.set.speed,
-      impellerDiameter: cand.set.impellerDiameter,
-      points: cand.set.points,
-    },
-    adjustment: cand.adjustment,
-    result: cand.result,
-    energy: cand.energy,
-    flowMax: bench.flowMax,
-  };
-  const [{ id }] = await db()
-    .insert(selections)
-    .values({
-      systemId: bench.system.id,
-      projectId: bench.system.projectId,
-      workspaceId: viewer.workspace.id,
-      curveSetId: c.curveSetId,
-      revisionId: rev?.revisionId ?? null,
-      title: title || cand.label,
-      note,
-      frozenJson: JSON.stringify(frozen),
-      createdBy: viewer.userId,
-    })
-    .$returningId();
-  return id;
-}
-
-export type FrozenSelection = {
-  format: string;
-  frozenAt: string;
-  project: { id: number; name: string };
-  system: { id: number; name: string; input: SystemInput };
-  systemCurve: ReturnType<typeof evaluateSystem> | null;
-  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
-  adjustment: Adjustment;
-  result: ReturnType<typeof evaluateCandidate>;
-  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
-  energy?: CandidateEnergy | null;
-  flowMax: number;
-};
-
-export async function getSelection(viewer: Viewer, selectionId: number) {
-  const [s] = await db()
-    .select()
-    .from(selections)
-    .where(and(eq(selections.id, selectionId), eq(selections.workspaceId, viewer.workspace.id)));
-  if (!s) throw notFound("selection");
-  return { ...s, frozen: JSON.parse(s.frozenJson) as FrozenSelection };
-}
-
-export async function listSelections(viewer: Viewer, filter: { projectId?: number; systemId?: number } = {}) {
-  const conds = [eq(selections.workspaceId, viewer.workspace.id)];
-  if (filter.projectId) conds.push(eq(selections.projectId, filter.projectId));
-  if (filter.systemId) conds.push(eq(selections.systemId, filter.systemId));
-  const rows = await db()
-    .select({ id: selections.id, title: selections.title, systemId: selections.systemId, projectId: selections.projectId, createdAt: selections.createdAt, systemName: systems.name, projectName: projects.name })
-    .from(selections)
-    .innerJoin(systems, eq(systems.id, selections.systemId))
-    .innerJoin(projects, eq(projects.id, selections.projectId))
-    .where(and(...conds))
-    .orderBy(desc(selections.id));
-  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
-}

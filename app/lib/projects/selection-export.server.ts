@@ -1,5 +1,5 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
-import type { FrozenSelection } from "./projects.server";
+import type { FrozenSelection } from "./selections.server";
 import { toCsv } from "../shared/csv";
 
 const row = (xs: unknown[]) => xs;

@@ -1,0 +1,101 @@
+// Selections: a candidate frozen with everything needed to print or check it later (system inputs,
+// curve points, library revision, adjustment, results, energy), scoped to the caller's workspace.
+import { and, desc, eq } from "drizzle-orm";
+import { data } from "react-router";
+import { db } from "@db/client.server";
+import { curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
+import type { LibraryCurveSet, Viewer } from "../libraries";
+import type { Adjustment, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
+import type { CandidateEnergy } from "./energy";
+import { notFound, ownCandidate, systemWorkbench } from "./projects.server";
+
+export const SELECTION_FORMAT = "dutymark-selection/1";
+
+/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
+  const c = await ownCandidate(viewer, candidateId);
+  const bench = await systemWorkbench(viewer, c.systemId);
+  const cand = bench.candidates.find((x) => x.id === c.id);
+  if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
+  const [rev] = await db()
+    .select({ revisionId: curveSets.revisionId, number: libraryRevisions.number, libraryId: libraries.id, libraryName: libraries.name, modelType: pumpModels.type, modelSize: pumpModels.nominalSize })
+    .from(curveSets)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
+    .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
+    .where(eq(curveSets.id, c.curveSetId));
+  const frozen = {
+    format: SELECTION_FORMAT,
+    frozenAt: new Date().toISOString(),
+    project: { id: bench.system.projectId, name: bench.system.projectName },
+    system: { id: bench.system.id, name: bench.system.name, input: bench.system.input },
+    systemCurve: bench.evaluation,
+    pump: {
+      label: cand.label,
+      model: cand.model,
+      type: rev?.modelType ?? "",
+      size: rev?.modelSize ?? "",
+      library: { id: rev?.libraryId, name: rev?.libraryName, revision: rev?.number, revisionId: rev?.revisionId },
+      curveSetId: c.curveSetId,
+      speed: cand.set.speed,
+      impellerDiameter: cand.set.impellerDiameter,
+      points: cand.set.points,
+    },
+    adjustment: cand.adjustment,
+    result: cand.result,
+    energy: cand.energy,
+    flowMax: bench.flowMax,
+  };
+  const [{ id }] = await db()
+    .insert(selections)
+    .values({
+      systemId: bench.system.id,
+      projectId: bench.system.projectId,
+      workspaceId: viewer.workspace.id,
+      curveSetId: c.curveSetId,
+      revisionId: rev?.revisionId ?? null,
+      title: title || cand.label,
+      note,
+      frozenJson: JSON.stringify(frozen),
+      createdBy: viewer.userId,
+    })
+    .$returningId();
+  return id;
+}
+
+export type FrozenSelection = {
+  format: string;
+  frozenAt: string;
+  project: { id: number; name: string };
+  system: { id: number; name: string; input: SystemInput };
+  systemCurve: ReturnType<typeof evaluateSystem> | null;
+  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
+  adjustment: Adjustment;
+  result: ReturnType<typeof evaluateCandidate>;
+  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
+  energy?: CandidateEnergy | null;
+  flowMax: number;
+};
+
+export async function getSelection(viewer: Viewer, selectionId: number) {
+  const [s] = await db()
+    .select()
+    .from(selections)
+    .where(and(eq(selections.id, selectionId), eq(selections.workspaceId, viewer.workspace.id)));
+  if (!s) throw notFound("selection");
+  return { ...s, frozen: JSON.parse(s.frozenJson) as FrozenSelection };
+}
+
+export async function listSelections(viewer: Viewer, filter: { projectId?: number; systemId?: number } = {}) {
+  const conds = [eq(selections.workspaceId, viewer.workspace.id)];
+  if (filter.projectId) conds.push(eq(selections.projectId, filter.projectId));
+  if (filter.systemId) conds.push(eq(selections.systemId, filter.systemId));
+  const rows = await db()
+    .select({ id: selections.id, title: selections.title, systemId: selections.systemId, projectId: selections.projectId, createdAt: selections.createdAt, systemName: systems.name, projectName: projects.name })
+    .from(selections)
+    .innerJoin(systems, eq(systems.id, selections.systemId))
+    .innerJoin(projects, eq(projects.id, selections.projectId))
+    .where(and(...conds))
+    .orderBy(desc(selections.id));
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+}
