@@ -8,6 +8,8 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { ListTable } from "~/components/ListTable";
+import { PostButton } from "~/components/PostButton";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
 
@@ -119,16 +121,7 @@ export default function Account() {
       </section>
       <section className="panel">
         <h2 className="text-lg font-semibold">Signed-in devices</h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="text-left text-slate-600">
-            <tr>
-              <th className="py-1">Device</th>
-              <th>Address</th>
-              <th>Signed in</th>
-              <th />
-            </tr>
-          </thead>
-          <tbody>
+        <ListTable head={["Device", "Address", "Signed in", ""]}>
             {d.devices.map((dev) => (
               <tr key={dev.id} className="border-t border-slate-100">
                 <td className="max-w-xs truncate py-1">{dev.userAgent || "unknown"}</td>
@@ -138,18 +131,14 @@ export default function Account() {
                   {dev.current ? (
                     <span className="text-slate-500">this device</span>
                   ) : (
-                    <Form method="post">
-                      <input type="hidden" name="sessionId" value={dev.id} />
-                      <button className="btn-quiet" name="intent" value="revoke-device">
-                        Sign out
-                      </button>
-                    </Form>
+                    <PostButton intent="revoke-device" field="sessionId" id={dev.id}>
+                      Sign out
+                    </PostButton>
                   )}
                 </td>
               </tr>
             ))}
-          </tbody>
-        </table>
+        </ListTable>
       </section>
       <section className="panel space-y-3">
         <h2 className="text-lg font-semibold">API tokens for {d.workspace.name}</h2>
@@ -158,17 +147,7 @@ export default function Account() {
           created.
         </p>
         {d.tokens.length ? (
-          <table className="w-full text-sm">
-            <thead className="text-left text-slate-600">
-              <tr>
-                <th className="py-1">Name</th>
-                <th>Starts with</th>
-                <th>Scope</th>
-                <th>Last used</th>
-                <th />
-              </tr>
-            </thead>
-            <tbody>
+          <ListTable head={["Name", "Starts with", "Scope", "Last used", ""]} className="">
               {d.tokens.map((t) => (
                 <tr key={t.id} className="border-t border-slate-100">
                   <td className="py-1">{t.name}</td>
@@ -178,17 +157,13 @@ export default function Account() {
                   <td>{t.scope === "write" ? "read-write" : "read"}</td>
                   <td>{fmt(t.lastUsedAt)}</td>
                   <td className="text-right">
-                    <Form method="post">
-                      <input type="hidden" name="tokenId" value={t.id} />
-                      <button className="btn-quiet" name="intent" value="revoke-token">
-                        Revoke
-                      </button>
-                    </Form>
+                    <PostButton intent="revoke-token" field="tokenId" id={t.id}>
+                      Revoke
+                    </PostButton>
                   </td>
                 </tr>
               ))}
-            </tbody>
-          </table>
+          </ListTable>
         ) : (
           <p className="text-sm text-slate-600">No tokens yet.</p>
         )}

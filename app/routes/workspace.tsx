@@ -8,6 +8,8 @@ import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.serv
 import { data } from "react-router";
 import { Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { PostButton } from "~/components/PostButton";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
 
@@ -134,16 +136,7 @@ export default function Workspace() {
 
       <section className="panel">
         <h2 className="text-lg font-semibold">People</h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="text-left text-slate-600">
-            <tr>
-              <th className="py-1">Name</th>
-              <th>E-mail</th>
-              <th>Role</th>
-              {admin ? <th /> : null}
-            </tr>
-          </thead>
-          <tbody>
+        <ListTable head={["Name", "E-mail", "Role", ...(admin ? [""] : [])]}>
             {d.members.map((mem) => (
               <tr key={mem.id} className="border-t border-slate-100">
                 <td className="py-1">{mem.name || "—"}</td>
@@ -173,19 +166,15 @@ export default function Workspace() {
                 {admin ? (
                   <td className="text-right">
                     {mem.userId !== d.me ? (
-                      <Form method="post">
-                        <input type="hidden" name="membershipId" value={mem.id} />
-                        <button className="btn-quiet py-0.5" name="intent" value="remove">
-                          Remove
-                        </button>
-                      </Form>
+                      <PostButton intent="remove" field="membershipId" id={mem.id} className="btn-quiet py-0.5">
+                        Remove
+                      </PostButton>
                     ) : null}
                   </td>
                 ) : null}
               </tr>
             ))}
-          </tbody>
-        </table>
+        </ListTable>
       </section>
 
       {admin ? (
@@ -215,12 +204,9 @@ export default function Workspace() {
                   <span>
                     {i.email} as {i.role} · expires {i.expiresAt.slice(0, 10)}
                   </span>
-                  <Form method="post">
-                    <input type="hidden" name="invitationId" value={i.id} />
-                    <button className="btn-quiet py-0.5" name="intent" value="revoke-invite">
-                      Withdraw
-                    </button>
-                  </Form>
+                  <PostButton intent="revoke-invite" field="invitationId" id={i.id} className="btn-quiet py-0.5">
+                    Withdraw
+                  </PostButton>
                 </li>
               ))}
             </ul>

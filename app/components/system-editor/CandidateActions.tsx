@@ -4,6 +4,7 @@ import { Form } from "react-router";
 import type { FormErrors, UnitSystem } from "~/lib/projects/system-form";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
+import { PostButton } from "~/components/PostButton";
 
 export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; errors: FormErrors; canWrite: boolean; canSelect: boolean }) {
   if (!canWrite && !canSelect) return null;
@@ -20,12 +21,9 @@ export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }:
         </Form>
       ) : null}
       {canWrite ? (
-        <Form method="post">
-          <input type="hidden" name="candidateId" value={c.id} />
-          <button className="text-xs text-slate-600 underline" name="intent" value="remove-candidate">
-            remove
-          </button>
-        </Form>
+        <PostButton intent="remove-candidate" field="candidateId" id={c.id} className="text-xs text-slate-600 underline">
+          remove
+        </PostButton>
       ) : null}
     </div>
   );
