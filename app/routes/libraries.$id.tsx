@@ -16,6 +16,7 @@ import { ImportList } from "~/components/ImportList";
 import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -271,33 +272,21 @@ export default function LibraryPage() {
           {d.revisions.length ? (
             <section className="panel">
               <h2 className="text-lg font-semibold">Revisions</h2>
-              <table className="mt-2 w-full text-sm">
-                <thead className="text-left text-slate-600">
-                  <tr>
-                    <th className="py-1">#</th>
-                    <th>Imported</th>
-                    <th>Curves</th>
-                    <th>Points</th>
-                    <th>Skipped</th>
-                    <th>Note</th>
+              <ListTable head={["#", "Imported", "Curves", "Points", "Skipped", "Note"]}>
+                {d.revisions.map((r, i) => (
+                  <tr key={r.id} className="border-t border-slate-100">
+                    <td className="py-1">
+                      {r.number}
+                      {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
+                    </td>
+                    <td>{r.at.slice(0, 16).replace("T", " ")} UTC</td>
+                    <td>{r.curves}</td>
+                    <td>{r.points}</td>
+                    <td>{r.skipped}</td>
+                    <td>{r.note}</td>
                   </tr>
-                </thead>
-                <tbody>
-                  {d.revisions.map((r, i) => (
-                    <tr key={r.id} className="border-t border-slate-100">
-                      <td className="py-1">
-                        {r.number}
-                        {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
-                      </td>
-                      <td>{r.at.slice(0, 16).replace("T", " ")} UTC</td>
-                      <td>{r.curves}</td>
-                      <td>{r.points}</td>
-                      <td>{r.skipped}</td>
-                      <td>{r.note}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+                ))}
+              </ListTable>
             </section>
           ) : null}
         </>

@@ -19,6 +19,7 @@ import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
@@ -258,52 +259,41 @@ export default function UploadPreview() {
               </select>
             </label>
           </div>
-          <table className="mt-3 w-full text-sm">
-            <thead className="text-left text-slate-600">
-              <tr>
-                <th className="py-1">Column in the file</th>
-                <th>First values</th>
-                <th>Means</th>
-                <th>Unit</th>
-                <th>Curve block</th>
-              </tr>
-            </thead>
-            <tbody>
-              {d.mapping.columns.map((c) => {
-                const numeric = (NUMERIC_FIELDS as readonly string[]).includes(c.field);
-                return (
-                  <tr key={c.index} className="border-t border-slate-100">
-                    <td className="py-1 font-semibold">{c.header || `column ${c.index + 1}`}</td>
-                    <td className="text-xs text-slate-600">{(d.samples[c.index] ?? []).join(" · ")}</td>
-                    <td>
-                      <select name={`field.${c.index}`} defaultValue={c.field} className="field w-auto py-0.5" aria-label={`Meaning of ${c.header}`}>
-                        {FIELDS.map((f) => (
-                          <option key={f} value={f}>
-                            {FIELD_LABEL[f]}
+          <ListTable head={["Column in the file", "First values", "Means", "Unit", "Curve block"]} className="mt-3">
+            {d.mapping.columns.map((c) => {
+              const numeric = (NUMERIC_FIELDS as readonly string[]).includes(c.field);
+              return (
+                <tr key={c.index} className="border-t border-slate-100">
+                  <td className="py-1 font-semibold">{c.header || `column ${c.index + 1}`}</td>
+                  <td className="text-xs text-slate-600">{(d.samples[c.index] ?? []).join(" · ")}</td>
+                  <td>
+                    <select name={`field.${c.index}`} defaultValue={c.field} className="field w-auto py-0.5" aria-label={`Meaning of ${c.header}`}>
+                      {FIELDS.map((f) => (
+                        <option key={f} value={f}>
+                          {FIELD_LABEL[f]}
+                        </option>
+                      ))}
+                    </select>
+                  </td>
+                  <td>
+                    {numeric ? (
+                      <select name={`unit.${c.index}`} defaultValue={c.unit ?? ""} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
+                        {(UNITS_BY_FIELD[c.field as NumericField] as readonly string[]).map((u) => (
+                          <option key={u} value={u}>
+                            {u}
                           </option>
                         ))}
                       </select>
-                    </td>
-                    <td>
-                      {numeric ? (
-                        <select name={`unit.${c.index}`} defaultValue={c.unit ?? ""} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
-                          {(UNITS_BY_FIELD[c.field as NumericField] as readonly string[]).map((u) => (
-                            <option key={u} value={u}>
-                              {u}
-                            </option>
-                          ))}
-                        </select>
-                      ) : (
-                        <span className="text-slate-400">—</span>
-                      )}
-                      {c.unitSource === "default" ? <span className="ml-1 text-xs text-duty-ink">assumed</span> : null}
-                    </td>
-                    <td className="text-xs">{c.block ? blockLabel(c.block) : ""}</td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
+                    ) : (
+                      <span className="text-slate-400">—</span>
+                    )}
+                    {c.unitSource === "default" ? <span className="ml-1 text-xs text-duty-ink">assumed</span> : null}
+                  </td>
+                  <td className="text-xs">{c.block ? blockLabel(c.block) : ""}</td>
+                </tr>
+              );
+            })}
+          </ListTable>
           <p className="mt-3">
             <button className="btn-quiet" name="intent" value="check">
               Check again with these columns

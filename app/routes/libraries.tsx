@@ -9,6 +9,7 @@ import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
 
@@ -73,37 +74,25 @@ export default function Libraries() {
 function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<typeof loader>>["list"]; empty: string }) {
   if (list.length === 0) return <p className="mt-2 text-sm text-slate-600">{empty}</p>;
   return (
-    <table className="mt-2 w-full text-sm">
-      <thead className="text-left text-slate-600">
-        <tr>
-          <th className="py-1">Library</th>
-          <th>Owner</th>
-          <th>Models</th>
-          <th>Curves</th>
-          <th>Revision</th>
-          <th>Access</th>
+    <ListTable head={["Library", "Owner", "Models", "Curves", "Revision", "Access"]}>
+      {list.map((l) => (
+        <tr key={l.id} className="border-t border-slate-100 align-top">
+          <td className="py-1">
+            <a href={`/libraries/${l.id}`} className="font-semibold">
+              {l.name}
+            </a>
+            {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
+          </td>
+          <td>{l.owner}</td>
+          <td>{l.modelCount}</td>
+          <td>{l.curveCount}</td>
+          <td>{l.revision ? `#${l.revision}` : "—"}</td>
+          <td>
+            <AccessBadge access={l.access} visibility={l.visibility} />
+          </td>
         </tr>
-      </thead>
-      <tbody>
-        {list.map((l) => (
-          <tr key={l.id} className="border-t border-slate-100 align-top">
-            <td className="py-1">
-              <a href={`/libraries/${l.id}`} className="font-semibold">
-                {l.name}
-              </a>
-              {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
-            </td>
-            <td>{l.owner}</td>
-            <td>{l.modelCount}</td>
-            <td>{l.curveCount}</td>
-            <td>{l.revision ? `#${l.revision}` : "—"}</td>
-            <td>
-              <AccessBadge access={l.access} visibility={l.visibility} />
-            </td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+      ))}
+    </ListTable>
   );
 }
 

@@ -8,6 +8,7 @@ import { can } from "~/lib/auth/permissions";
 import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];
 
@@ -47,30 +48,20 @@ export default function Projects() {
         {d.list.length === 0 ? (
           <p className="text-sm text-slate-600">{d.archived ? "No archived projects." : `No projects in ${d.workspace} yet.`}</p>
         ) : (
-          <table className="w-full text-sm">
-            <thead className="text-left text-slate-600">
-              <tr>
-                <th className="py-1">Project</th>
-                <th>Site</th>
-                <th>Systems</th>
-                <th>Selections</th>
+          <ListTable head={["Project", "Site", "Systems", "Selections"]} className="">
+            {d.list.map((p) => (
+              <tr key={p.id} className="border-t border-slate-100">
+                <td className="py-1">
+                  <a href={`/projects/${p.id}`} className="font-semibold">
+                    {p.name}
+                  </a>
+                </td>
+                <td>{p.site}</td>
+                <td>{p.systems}</td>
+                <td>{p.selections}</td>
               </tr>
-            </thead>
-            <tbody>
-              {d.list.map((p) => (
-                <tr key={p.id} className="border-t border-slate-100">
-                  <td className="py-1">
-                    <a href={`/projects/${p.id}`} className="font-semibold">
-                      {p.name}
-                    </a>
-                  </td>
-                  <td>{p.site}</td>
-                  <td>{p.systems}</td>
-                  <td>{p.selections}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+            ))}
+          </ListTable>
         )}
       </section>
       {d.canWrite && !d.archived ? (
