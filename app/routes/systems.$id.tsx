@@ -145,7 +145,7 @@ export default function SystemPage() {
       {a?.notice ? <Notice>{a.notice}</Notice> : null}
       <LeaveQuestion blocker={unsaved.blocker} />
       <div className="grid gap-4 xl:grid-cols-[minmax(22rem,30rem)_1fr]">
-        <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs">
+        <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs" data-unsaved={unsaved.watching ? (unsaved.dirty ? "yes" : "no") : undefined}>
           <fieldset disabled={ro} className="space-y-4">
             <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
             <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view.evaluation?.dutyCheck} />
