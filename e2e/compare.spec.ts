@@ -80,11 +80,7 @@ test.describe("without JavaScript", () => {
   test.use({ javaScriptEnabled: false });
 
   test("Without JavaScript an engineer ticks two pumps in a search and adds them at once", async ({ page }) => {
-    await page.goto("/signin");
-    await page.getByLabel("E-mail").fill("engineer@kestrel.example");
-    await page.getByLabel("Password").fill("duty-demo-2026");
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await expect(page.getByRole("button", { name: "Sign out" })).toBeVisible();
+    await signIn(page, "engineer@kestrel.example"); // a plain form post
     const { systemPath } = await newSystem(page, "Tick two");
     await page.getByLabel("Flow").first().fill("36");
     await page.getByLabel("Head").first().fill("16");
