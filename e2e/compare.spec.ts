@@ -35,6 +35,11 @@ test("Unsaved changes on the system editor: leaving by a link asks, staying keep
   await expect(question).toHaveCount(0);
   await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
   await expect(page.getByLabel("Flow").first()).toHaveValue("41");
+  await breadcrumb.click(); // asked again; Escape also means "stay"
+  await expect(question).toBeVisible();
+  await page.keyboard.press("Escape");
+  await expect(question).toHaveCount(0);
+  await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
 
   await page.getByRole("button", { name: "Save system" }).click();
   await expect(page.getByText("System saved.")).toBeVisible();

@@ -4,7 +4,8 @@ import type { Blocker } from "react-router";
 export function LeaveQuestion({ blocker }: { blocker: Blocker }) {
   if (blocker.state !== "blocked") return null;
   return (
-    <div className="fixed inset-0 z-50 flex items-start justify-center bg-slate-900/30 p-4 pt-24">
+    // Escape answers "stay", as closing a question does elsewhere.
+    <div className="fixed inset-0 z-50 flex items-start justify-center bg-slate-900/30 p-4 pt-24" onKeyDown={(e) => e.key === "Escape" && blocker.reset()}>
       <div role="alertdialog" aria-modal="true" aria-labelledby="leave-h" aria-describedby="leave-d" className="panel max-w-md space-y-3 shadow-lg">
         <h2 id="leave-h" className="font-semibold">
           Leave without saving?
