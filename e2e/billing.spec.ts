@@ -49,6 +49,8 @@ test("A free workspace upgrades through checkout, the webhook opens shared libra
 
   await page.goto("/workspace/billing");
   await expect(page.getByTestId("plan-name")).toHaveText("Starter");
+  // The price before checkout, read from Stripe (the stand-in's price: 49.00 EUR a month, fixtures/stripe/README.md).
+  await expect(page.getByTestId("paid-price")).toContainText("49.00 EUR per month");
 
   // A declined card: the stand-in's page says so; our plan is unchanged (Stripe docs: test card 4000 0000 0000 0002).
   await page.getByRole("button", { name: "Upgrade to Network" }).click();

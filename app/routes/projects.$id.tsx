@@ -7,6 +7,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
+import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 
@@ -21,6 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     project: { id: p.id, name: p.name, site: p.site, description: p.description, archived: p.archivedAt != null },
     systems: await listSystems(viewer, id),
     selections: await listSelections(viewer, { projectId: id }),
+    role: m.role,
     canWrite: can(m.role, "project.write"),
     unitSystem: m.user.unitSystem,
   };
@@ -81,6 +83,7 @@ export default function ProjectPage() {
           {d.project.description ? ` · ${d.project.description}` : ""}
         </p>
       </div>
+      {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
       {a?.notice ? <Notice>{a.notice}</Notice> : null}
       <FormError error={errors._form} />
       <section className="panel">

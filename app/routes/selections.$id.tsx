@@ -12,14 +12,18 @@ import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { resultFlowMax } from "~/lib/projects/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
+import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
-  const s = await getSelection(viewerOf(m), id);
-  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name };
+  const viewer = viewerOf(m);
+  const s = await getSelection(viewer, id);
+  const fieldChecks = await checksOfSelection(viewer, s.id);
+  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name, fieldChecks };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
@@ -187,6 +191,8 @@ export default function SelectionReport() {
           <RunTable view={view} unitSystem={sys} />
         </div>
       </section>
+
+      <SelectionFieldChecks checks={d.fieldChecks} unitSystem={sys} selectionId={d.id} />
 
       <section className="panel break-inside-avoid text-sm">
         <h2 className="font-semibold">Methods and assumptions</h2>

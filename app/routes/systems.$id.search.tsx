@@ -1,8 +1,8 @@
 import * as v from "valibot";
-import { Form, redirect, useLoaderData } from "react-router";
+import { data, Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/auth/guards.server";
-import { addCandidate, listCandidates, searchForSystem } from "~/lib/projects";
+import { addCandidate, addCandidates, listCandidates, MAX_CANDIDATES, MAX_PICKS, PicksSchema, searchForSystem } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryText } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
@@ -79,6 +79,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       already: current.some((c) => c.curveSetId === r.curveSetId),
     })),
     candidateCount: current.length,
+    limits: { candidates: MAX_CANDIDATES, picks: MAX_PICKS },
     canWrite: can(m.role, "project.write"),
     filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
   };
@@ -88,6 +89,15 @@ export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
   const id = readId(params.id);
   const form = await readFormSafe(request);
+  // Several ticked rows ("Add the ticked pumps"), all or nothing, in one transaction.
+  if (form.get("intent") === "add-many" || form.has("add")) {
+    const picks = v.safeParse(PicksSchema, form.getAll("add"));
+    if (!picks.success) throw data({ errors: { add: picks.issues[0].message } }, { status: 400 });
+    const r = await addCandidates(viewerOf(m), id, picks.output);
+    if (!r.ok) return { error: r.reason };
+    throw redirect(`/systems/${id}`);
+  }
+  // One row's own "Add" button.
   const curveSetId = formId(form, "curveSetId");
   const method = form.get("method");
   const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
@@ -158,66 +168,91 @@ export default function Search({ actionData }: Route.ComponentProps) {
         {d.results.length === 0 ? (
           <p className="text-sm text-slate-600">No pump in the libraries open to you meets this duty with these filters.</p>
         ) : (
-          <table className="w-full text-sm" aria-label="Ranked pumps">
-            <thead className="text-left text-slate-600">
-              <tr>
-                <th className="py-1">#</th>
-                <th>Pump</th>
-                <th>Library</th>
-                <th>How</th>
-                <th>Verdict</th>
-                <th>Efficiency</th>
-                <th>vs BEP</th>
-                <th>NPSH margin</th>
-                <th>Shaft power</th>
-                <th>Why this rank</th>
-                <th />
-              </tr>
-            </thead>
-            <tbody>
-              {d.results.map((r) => (
-                <tr key={`${r.curveSetId}-${r.method}`} className="border-t border-slate-100 align-top">
-                  <td className="py-1">{r.rank}</td>
-                  <td>
-                    <span className="font-semibold">{r.model}</span> <span className="text-xs text-slate-500">{r.curve}</span>
-                    <div className="text-xs text-slate-500">{[r.type, r.size].filter(Boolean).join(" · ")}</div>
-                  </td>
-                  <td className="text-xs">
-                    {r.library}
-                    {r.alsoIn.length ? <div className="text-slate-500">also in {r.alsoIn.join(", ")}</div> : null}
-                  </td>
-                  <td>{r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %`}</td>
-                  <td className="max-w-xs">
-                    <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} />
-                  </td>
-                  <td>{fmtPct(r.efficiency)}</td>
-                  <td>
-                    {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
-                    {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
-                  </td>
-                  <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
-                  <td>{fmtPower(sys, r.shaftPower)}</td>
-                  <td className="max-w-md text-xs">{r.reason}</td>
-                  <td>
+          <Form method="post" aria-label="Add ticked pumps">
+            <table className="w-full text-sm" aria-label="Ranked pumps">
+              <thead className="text-left text-slate-600">
+                <tr>
+                  {d.canWrite ? <th className="py-1"><span className="sr-only">Tick</span></th> : null}
+                  <th className="py-1">#</th>
+                  <th>Pump</th>
+                  <th>Library</th>
+                  <th>How</th>
+                  <th>Verdict</th>
+                  <th>Efficiency</th>
+                  <th>vs BEP</th>
+                  <th>NPSH margin</th>
+                  <th>Shaft power</th>
+                  <th>Why this rank</th>
+                  <th />
+                </tr>
+              </thead>
+              <tbody>
+                {d.results.map((r, i) => (
+                  <tr key={`${r.curveSetId}-${r.method}`} className="border-t border-slate-100 align-top">
                     {d.canWrite ? (
-                      r.already ? (
-                        <span className="text-xs text-slate-500">candidate</span>
-                      ) : (
-                        <Form method="post">
-                          <input type="hidden" name="curveSetId" value={r.curveSetId} />
-                          <input type="hidden" name="method" value={r.method} />
-                          <button className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= 6} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
+                      <td className="py-1">
+                        {r.already ? null : <input type="checkbox" name="add" value={`${r.curveSetId}:${r.method}`} aria-label={`Tick ${r.model} ${r.curve} (${METHOD_TEXT[r.method]})`} />}
+                      </td>
+                    ) : null}
+                    <td className="py-1">{r.rank}</td>
+                    <td>
+                      <span className="font-semibold">{r.model}</span> <span className="text-xs text-slate-500">{r.curve}</span>
+                      <div className="text-xs text-slate-500">{[r.type, r.size].filter(Boolean).join(" · ")}</div>
+                    </td>
+                    <td className="text-xs">
+                      {r.library}
+                      {r.alsoIn.length ? <div className="text-slate-500">also in {r.alsoIn.join(", ")}</div> : null}
+                    </td>
+                    <td>{r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %`}</td>
+                    <td className="max-w-xs">
+                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} />
+                    </td>
+                    <td>{fmtPct(r.efficiency)}</td>
+                    <td>
+                      {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
+                      {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
+                    </td>
+                    <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
+                    <td>{fmtPower(sys, r.shaftPower)}</td>
+                    <td className="max-w-md text-xs">{r.reason}</td>
+                    <td>
+                      {d.canWrite ? (
+                        r.already ? (
+                          <span className="text-xs text-slate-500">candidate</span>
+                        ) : (
+                          // Submits its own small form below the table (the HTML form attribute), not the ticked rows.
+                          <button form={`add-one-${i}`} className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= d.limits.candidates} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
                             Add
                           </button>
-                        </Form>
-                      )
-                    ) : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+                        )
+                      ) : null}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            {d.canWrite ? (
+              <p className="mt-3 flex flex-wrap items-center gap-3 text-sm">
+                <button className="btn" name="intent" value="add-many" disabled={d.candidateCount >= d.limits.candidates}>
+                  Add the ticked pumps
+                </button>
+                <span className="text-xs text-slate-600">
+                  Up to {d.limits.picks} at once; a system keeps at most {d.limits.candidates} candidates ({d.candidateCount} now). Pumps already on the system are left as they are.
+                </span>
+              </p>
+            ) : null}
+          </Form>
         )}
+        {d.canWrite
+          ? d.results.map((r, i) =>
+              r.already ? null : (
+                <Form key={`${r.curveSetId}-${r.method}`} method="post" id={`add-one-${i}`} hidden>
+                  <input type="hidden" name="curveSetId" value={r.curveSetId} />
+                  <input type="hidden" name="method" value={r.method} />
+                </Form>
+              ),
+            )
+          : null}
       </section>
       {d.locked.length ? (
         <section className="panel">

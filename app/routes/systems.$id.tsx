@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from "react";
-import { Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
+import { Form, Link, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
@@ -18,6 +18,9 @@ import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
 import { RunsFieldset } from "~/components/system-editor/RunsFieldset";
 import { CandidateActions } from "~/components/system-editor/CandidateActions";
 import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
+import { useUnsavedChanges } from "~/components/system-editor/useUnsavedChanges";
+import { LeaveQuestion } from "~/components/system-editor/LeaveQuestion";
+import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -35,6 +38,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     input: bench.system.input,
     view: workbenchView(bench),
     unitSystem: m.user.unitSystem as UnitSystem,
+    role: m.role,
     canWrite: can(m.role, "project.write"),
     canSelect: can(m.role, "selection.write"),
     currency: await workspaceCurrency(m.workspace.id),
@@ -56,7 +60,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (!input) return { errors, notice: null };
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
-      return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved." };
+      return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved.", saved: true };
     }
     case "copy":
       throw redirect(`/systems/${await copySystem(viewer, id)}`);
@@ -96,7 +100,7 @@ async function postPreview([url, input]: [string, string]): Promise<WorkbenchVie
 
 export default function SystemPage() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null } | undefined;
+  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null; saved?: boolean } | undefined;
   const nav = useNavigation();
   const formRef = useRef<HTMLFormElement>(null);
   const [draft, setDraft] = useState<string | null>(null);
@@ -106,7 +110,9 @@ export default function SystemPage() {
   // server) and the unsaved inputs go to the preview API; swr keeps the last good answer.
   const { data: live, isValidating } = useSWR(draft ? [`/api/v1/systems/${d.id}/preview`, draft] : null, postPreview, { keepPreviousData: true, revalidateOnFocus: false });
   useEffect(() => setDraft(null), [d]);
+  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
   const onInput = () => {
+    unsaved.check();
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => {
       if (!formRef.current) return;
@@ -125,7 +131,7 @@ export default function SystemPage() {
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div>
           <p className="text-sm">
-            <a href="/projects">Projects</a> › <a href={`/projects/${d.project.id}`}>{d.project.name}</a> ›
+            <Link to="/projects">Projects</Link> › <Link to={`/projects/${d.project.id}`}>{d.project.name}</Link> ›
           </p>
           <h1 className="text-2xl font-bold text-brand-900">{d.name}</h1>
         </div>
@@ -135,9 +141,11 @@ export default function SystemPage() {
           </a>
         </div>
       </div>
+      {ro ? <ReadOnlyNotice what="system" role={d.role} /> : null}
       {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      <LeaveQuestion blocker={unsaved.blocker} />
       <div className="grid gap-4 xl:grid-cols-[minmax(22rem,30rem)_1fr]">
-        <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs">
+        <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs" data-unsaved={unsaved.watching ? (unsaved.dirty ? "yes" : "no") : undefined}>
           <fieldset disabled={ro} className="space-y-4">
             <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
             <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view.evaluation?.dutyCheck} />
@@ -149,6 +157,7 @@ export default function SystemPage() {
                   {nav.state === "submitting" ? "Saving…" : "Save system"}
                 </button>
                 {draft ? <span className="text-xs text-slate-600">Chart shows unsaved changes{isValidating ? " (updating…)" : ""}</span> : null}
+                {unsaved.dirty && !draft ? <span className="text-xs text-slate-600">Unsaved changes</span> : null}
               </div>
             ) : null}
           </fieldset>

@@ -18,6 +18,7 @@ import {
   setCancelAtPeriodEnd,
   startCheckout,
   type InvoiceRow,
+  paidPlanPrice,
 } from "~/lib/billing";
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
@@ -41,6 +42,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   // Library names and descriptions only (the listing never carries curves); a member without library.read sees none.
   const shared = (await listLibraries(viewerOf(m))).filter((l) => l.access !== "owner" && l.visibility === "shared");
   const checkout = readQuery(request.url, "checkout", 40) || null;
+  // Before checkout: what the paid plan costs, from Stripe (null: shown at checkout).
+  const price = state.plan === "free" ? await paidPlanPrice() : null;
   return {
     workspace: { name: m.workspace.name },
     role: m.role,
@@ -48,7 +51,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     plan: state.plan,
     planName: state.planName,
     summary: PLAN_SUMMARY[state.plan],
-    paid: { name: PLAN_NAMES.network, summary: PLAN_SUMMARY.network },
+    paid: { name: PLAN_NAMES.network, summary: PLAN_SUMMARY.network, price: price?.text ?? null },
     status: state.status,
     periodEnd: state.currentPeriodEnd,
     cancelAtPeriodEnd: state.cancelAtPeriodEnd,
@@ -102,6 +105,21 @@ export async function action({ request }: Route.ActionArgs) {
 
 const fmtDate = (iso: string) => iso.slice(0, 10);
 const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+
+/** The paid plan's price as Stripe states it, or where to find it when it could not be read. */
+function PaidPrice({ price }: { price: string | null }) {
+  return (
+    <p className="text-sm" data-testid="paid-price">
+      {price ? (
+        <>
+          Price: <strong>{price}</strong> (from Stripe; checkout shows the total before you pay).
+        </>
+      ) : (
+        "The price could not be read just now; it is shown at checkout, before you pay."
+      )}
+    </p>
+  );
+}
 
 /** After checkout the webhook may land a moment later: look again for a while, then stop. */
 function useWaitForPlan(waiting: boolean) {
@@ -169,8 +187,9 @@ export default function Billing() {
           {d.plan === "free" ? (
             <Form method="post" className="space-y-2">
               <p className="text-sm text-slate-700">
-                {d.paid.name}: {d.paid.summary} Billed monthly; you pay on Stripe's checkout page and can stop at the end of any period.
+                {d.paid.name}: {d.paid.summary} You pay on Stripe's checkout page and can stop at the end of any period.
               </p>
+              <PaidPrice price={d.paid.price} />
               <button className="btn" name="intent" value="upgrade" disabled={busy}>
                 Upgrade to {d.paid.name}
               </button>
@@ -199,7 +218,10 @@ export default function Billing() {
           )}
         </section>
       ) : (
-        <p className="text-sm text-slate-600">Only an admin of {d.workspace.name} changes the plan.</p>
+        <div className="space-y-1">
+          <p className="text-sm text-slate-600">Only an admin of {d.workspace.name} changes the plan.</p>
+          {d.plan === "free" ? <PaidPrice price={d.paid.price} /> : null}
+        </div>
       )}
 
       {d.shared.length ? (

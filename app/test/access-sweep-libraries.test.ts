@@ -36,7 +36,7 @@ import * as traceFile from "~/routes/libraries.$id.trace.$pictureId.file";
 import { storePicture } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
 
-type Ctx = { a: TestMember; aToken: string; b: TestMember; lib: number; upload: number; picture: number; model: number; project: number; system: number; candidate: number; selection: number; marker: string };
+type Ctx = { a: TestMember; aToken: string; b: TestMember; lib: number; upload: number; picture: number; model: number; project: number; system: number; set: number; candidate: number; selection: number; marker: string };
 let ctx: Ctx;
 
 beforeAll(async () => {
@@ -56,12 +56,13 @@ beforeAll(async () => {
   const { curvesOfRevisions } = await import("~/lib/libraries");
   const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
   const sets = await curvesOfRevisions([rev.id!]);
-  const added = await addCandidate(vb, system, sets.find((s) => s.model === marker)!.id, DEFAULT_ADJUSTMENT);
+  const set = sets.find((s) => s.model === marker)!.id;
+  const added = await addCandidate(vb, system, set, DEFAULT_ADJUSTMENT);
   if (!added.ok) throw new Error(added.reason);
   const selection = await selectCandidate(vb, added.id, marker, "");
   const { token } = await createApiToken({ userId: a.userId, workspaceId: a.workspaceId, name: "sweep", scope: "write" });
   const picture = await storePicture(vb, lib, new File([chartPdf()], "b.pdf", { type: "application/pdf" }));
-  ctx = { a, aToken: token, b, lib, upload, picture, model: model.id, project, system, candidate: added.id, selection, marker };
+  ctx = { a, aToken: token, b, lib, upload, picture, model: model.id, project, system, set, candidate: added.id, selection, marker };
 });
 afterAll(() => closeDb());
 
@@ -89,6 +90,7 @@ const PROBES: [string, ReturnType<typeof page>][] = [
   ["POST /systems/:id select B's candidate", page(systemPage.action, (c) => `/systems/${c.system}`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "select", candidateId: String(c.candidate) }))],
   ["GET /systems/:id/search", page(searchPage.loader, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }))],
   ["POST /systems/:id/search (add B's curve)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), () => ({ curveSetId: "1" }))],
+  ["POST /systems/:id/search (add several, ticked)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "add-many", add: `${c.set}:direct` }))],
   ["GET /selections/:id", page(selectionPage.loader, (c) => `/selections/${c.selection}`, (c) => ({ id: String(c.selection) }))],
   ["GET /selections/:id/export.csv", page(selCsv.loader, (c) => `/selections/${c.selection}/export.csv`, (c) => ({ id: String(c.selection) }))],
   ["GET /selections/:id/export.json", page(selJson.loader, (c) => `/selections/${c.selection}/export.json`, (c) => ({ id: String(c.selection) }))],
@@ -146,6 +148,17 @@ describe("access sweep (libraries, projects, API): workspace A cannot reach work
     const r2 = await call(uploadPage.action as unknown as Fn, { path: `/libraries/${ctx.lib}/uploads/${ctx.upload}`, params: { id: String(ctx.lib), uploadId: String(ctx.upload) }, cookie: e.cookie, form });
     expect([403, 404]).toContain(r2.status);
     expect((await db().select().from(uploads).where(eq(uploads.libraryId, ctx.lib))).length).toBe(1);
+  });
+  test("POST /systems/:id/search on A's own system with B's private curves ticked: 404, nothing added (single and several)", async () => {
+    const va = { userId: ctx.a.userId, workspace: { id: ctx.a.workspaceId, name: "A", slug: "a", plan: "free" as const }, role: "admin" as const };
+    const system = await createSystem(va, await createProject(va, { name: "A's own", site: "", description: "" }), "A's own system", defaultSystemInput());
+    const post = (body: URLSearchParams) => call(searchPage.action as unknown as Fn, { path: `/systems/${system}/search`, params: { id: String(system) }, cookie: ctx.a.cookie, method: "POST", body });
+    for (const body of [new URLSearchParams({ curveSetId: String(ctx.set), method: "direct" }), new URLSearchParams([["add", `${ctx.set}:direct`], ["intent", "add-many"]])]) {
+      const r = await post(body);
+      expect([403, 404]).toContain(r.status);
+      expect(JSON.stringify(r.body ?? "")).not.toContain(ctx.marker);
+    }
+    expect(await db().select().from(candidates).where(eq(candidates.systemId, system))).toEqual([]);
   });
   test("POST /libraries/:id/upload (a file into B's library)", async () => {
     const fd = new FormData();

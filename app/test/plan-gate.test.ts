@@ -147,6 +147,15 @@ async function addFresh() {
   return { status: r.status, rows: rows.filter((x) => x.systemId === c.systemId).length };
 }
 
+/** The search page's "Add the ticked pumps" with two more curves of the shared library ticked. */
+async function addSeveral() {
+  const ids = [...c.sharedSets].filter((id) => id !== c.freshSetId && id !== c.earlierSetId).slice(0, 2);
+  const body = new URLSearchParams([...ids.map((id) => ["add", `${id}:direct`]), ["intent", "add-many"]]);
+  const r = await call(searchPage.action as never, asEngineer(`/systems/${c.systemId}/search`, { params: { id: String(c.systemId) }, method: "POST", body }));
+  const rows = await db().select().from(candidates).where(inArray(candidates.curveSetId, ids));
+  return { status: r.status, rows: rows.filter((x) => x.systemId === c.systemId).length };
+}
+
 describe("Starter (free): shared libraries listed, never their curves", () => {
   beforeAll(async () => {
     await setPlan(c.engineer.workspaceId, "free");
@@ -177,6 +186,10 @@ describe("Starter (free): shared libraries listed, never their curves", () => {
 
   test("adding a curve of the locked library as a candidate: 404, nothing stored", async () => {
     expect(await addFresh()).toEqual({ status: 404, rows: 0 });
+  });
+
+  test("adding several ticked curves of the locked library at once: 404, nothing stored", async () => {
+    expect(await addSeveral()).toEqual({ status: 404, rows: 0 });
   });
 
   test("system workbench: a candidate added while on Network shows no curve of the now locked library", async () => {
@@ -241,5 +254,9 @@ describe("Network: the same paths open the shared library", () => {
 
   test("a curve of the shared library can be added as a candidate", async () => {
     expect(await addFresh()).toEqual({ status: 302, rows: 1 });
+  });
+
+  test("several ticked curves of the shared library can be added at once", async () => {
+    expect(await addSeveral()).toEqual({ status: 302, rows: 2 });
   });
 });

@@ -3,6 +3,7 @@
 // system-form, workbench-view, search-view, candidate-judgement, energy, energy-form, adjust-form).
 export * from "./projects.server";
 export * from "./selections.server";
+export * from "./candidates.server";
 export * from "./shares.server";
 export * from "./search.server";
 export * from "./systems-api.server";

@@ -1,0 +1,78 @@
+// The field checks recorded against a selection, on its report page (not printed: the report is the
+// frozen selection; checks come later). Each links to its own page at /field/checks/:id.
+import type { Verdict } from "~/lib/fieldchecks";
+import { VerdictBadge } from "./fieldcheck";
+import { fmtFlow, fmtHead, type UnitSystem } from "./units";
+
+/** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it. */
+export type SelectionCheckRow = {
+  id: number;
+  version: number;
+  superseded: boolean;
+  createdAt: string;
+  byName: string;
+  byWorkspace: string;
+  flow: number | null;
+  head: number;
+  flowSource: string;
+  verdict: Verdict;
+  verdictText: string;
+  grade: string;
+  rule: string;
+};
+
+export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { checks: SelectionCheckRow[]; unitSystem: UnitSystem; selectionId: number }) {
+  return (
+    <section className="no-print panel text-sm" aria-labelledby="field-checks-h">
+      <h2 id="field-checks-h" className="font-semibold">
+        Field checks
+      </h2>
+      {checks.length === 0 ? (
+        <p className="mt-1 text-slate-600">
+          No field check recorded yet. <a href={`/field/selections/${selectionId}`}>Record one</a> when the pump runs on site.
+        </p>
+      ) : (
+        <table className="mt-2 w-full" aria-label="Field checks of this selection">
+          <thead className="text-left text-slate-600">
+            <tr>
+              <th className="py-1">Date</th>
+              <th>Recorded by</th>
+              <th>Delivered</th>
+              <th>Verdict</th>
+              <th>Rule</th>
+              <th />
+            </tr>
+          </thead>
+          <tbody>
+            {checks.map((c) => (
+              <tr key={c.id} className={`border-t border-slate-100 align-top ${c.superseded ? "text-slate-500" : ""}`}>
+                <td className="py-1">
+                  {c.createdAt.slice(0, 16).replace("T", " ")}
+                  {c.version > 1 ? <span className="text-xs"> · version {c.version}</span> : null}
+                  {c.superseded ? <span className="text-xs"> · amended since</span> : null}
+                </td>
+                <td>
+                  {c.byName || "a former member"}
+                  <div className="text-xs text-slate-500">{c.byWorkspace}</div>
+                </td>
+                <td>
+                  {c.flow !== null ? fmtFlow(unitSystem, c.flow) : "flow not measured"} at {fmtHead(unitSystem, c.head)}
+                  {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
+                </td>
+                <td>
+                  <VerdictBadge verdict={c.verdict} />
+                </td>
+                <td className="max-w-xs text-xs">{c.rule}</td>
+                <td>
+                  <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${c.createdAt.slice(0, 10)}`}>
+                    Open
+                  </a>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </section>
+  );
+}
