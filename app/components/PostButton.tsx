@@ -1,12 +1,12 @@
-// One button that posts one intent about one record (revoke, remove, withdraw…): a form of its
-// own with the record's id in a hidden field, so it works without JavaScript.
+// One button that posts one intent (copy, archive) or one intent about one record (revoke, remove,
+// withdraw…: the record's id in a hidden field): a form of its own, so it works without JavaScript.
 import type { ReactNode } from "react";
 import { Form } from "react-router";
 
-export function PostButton({ intent, field, id, className = "btn-quiet", children }: { intent: string; field: string; id: number | string; className?: string; children: ReactNode }) {
+export function PostButton({ intent, field, id, className = "btn-quiet", children }: { intent: string; field?: string; id?: number | string; className?: string; children: ReactNode }) {
   return (
     <Form method="post">
-      <input type="hidden" name={field} value={id} />
+      {field ? <input type="hidden" name={field} value={id} /> : null}
       <button className={className} name="intent" value={intent}>
         {children}
       </button>

@@ -10,6 +10,7 @@ import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -58,9 +59,7 @@ export default function FieldCheckRecord() {
   return (
     <article className="mx-auto max-w-3xl space-y-4">
       <header>
-        <p className="text-sm">
-          <a href="/field">Field checks</a> › <a href={`/field/selections/${d.selection.id}`}>{d.selection.title}</a> ›
-        </p>
+        <Crumbs trail={[["/field", "Field checks"], [`/field/selections/${d.selection.id}`, d.selection.title]]} />
         <h1 className="text-xl font-bold text-brand-900">
           Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
         </h1>

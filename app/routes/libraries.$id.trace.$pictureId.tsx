@@ -11,6 +11,7 @@ import { FormError, Notice } from "~/components/forms";
 import { JsNotice } from "~/components/tracer/JsNotice";
 import { TracerWorkbench } from "~/components/tracer/TracerWorkbench";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -51,10 +52,7 @@ export default function TracePicture({ loaderData: d, actionData }: Route.Compon
   return (
     <div className="space-y-4">
       <div>
-        <p className="text-sm">
-          <a href="/libraries">Pump libraries</a> › <a href={`/libraries/${d.lib.id}`}>{d.lib.name}</a> ›{" "}
-          <a href={`/libraries/${d.lib.id}/trace`}>Trace a curve</a> ›
-        </p>
+        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name], [`/libraries/${d.lib.id}/trace`, "Trace a curve"]]} />
         <h1 className="text-2xl font-bold text-brand-900">Trace: {d.picture.filename}</h1>
         <p className="text-xs text-slate-500">
           {d.picture.type} · SHA-256 {d.picture.sha256.slice(0, 16)}…

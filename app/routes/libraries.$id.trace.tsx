@@ -6,6 +6,7 @@ import { listPictures, MAX_PICTURE_BYTES } from "~/lib/tracer/pictures.server";
 import { fmtBytes } from "~/components/library-bits";
 import { JsNotice } from "~/components/tracer/JsNotice";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -20,9 +21,7 @@ export default function TraceStart({ loaderData: d }: Route.ComponentProps) {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <a href="/libraries">Pump libraries</a> › <a href={`/libraries/${d.lib.id}`}>{d.lib.name}</a> ›
-        </p>
+        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name]]} />
         <h1 className="text-2xl font-bold text-brand-900">Trace a curve</h1>
         <p className="text-sm text-slate-600">
           From a PDF datasheet or a scanned page: calibrate the axes, follow each curve by clicking or by its colour, then check and import

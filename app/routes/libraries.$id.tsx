@@ -17,6 +17,7 @@ import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -130,9 +131,7 @@ export default function LibraryPage() {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <a href="/libraries">Pump libraries</a> ›
-        </p>
+        <Crumbs trail={[["/libraries", "Pump libraries"]]} />
         <h1 className="flex flex-wrap items-center gap-3 text-2xl font-bold text-brand-900">
           {d.lib.name} <AccessBadge access={d.lib.access} visibility={d.lib.visibility} />
         </h1>

@@ -20,6 +20,7 @@ import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
@@ -160,9 +161,7 @@ export default function UploadPreview() {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <a href="/libraries">Pump libraries</a> › <a href={`/libraries/${l.lib.id}`}>{l.lib.name}</a> ›
-        </p>
+        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${l.lib.id}`, l.lib.name]]} />
         <h1 className="text-2xl font-bold text-brand-900">Map and check: {l.upload.filename}</h1>
         <p className="text-xs text-slate-500">
           {fmtBytes(l.upload.size)} · SHA-256 {l.upload.sha256.slice(0, 16)}… · delimiter “{d.sniff.delimiter}” · decimal{" "}

@@ -6,6 +6,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { IdField, invalid, readForm, readId } from "~/lib/shared/forms.server";
 import { listShares, shareProject, unshareProject } from "~/lib/projects";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
 // commissioning contractor) by its exact name or short name; lists and removes shares.
@@ -44,9 +45,7 @@ export default function ShareProject() {
   return (
     <article className="mx-auto max-w-xl space-y-4">
       <header>
-        <p className="text-sm">
-          <a href={`/projects/${d.project.id}`}>{d.project.name}</a> ›
-        </p>
+        <Crumbs trail={[[`/projects/${d.project.id}`, d.project.name]]} />
         <h1 className="text-xl font-bold text-brand-900">Share with a contractor</h1>
         <p className="text-sm text-slate-700">
           Members of the workspace you share with see this project's selections under Field checks, record checks against them, and see every check recorded

@@ -10,6 +10,8 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
+import { PostButton } from "~/components/PostButton";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -72,9 +74,7 @@ export default function ProjectPage() {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <a href="/projects">Projects</a> ›
-        </p>
+        <Crumbs trail={[["/projects", "Projects"]]} />
         <h1 className="text-2xl font-bold text-brand-900">
           {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
         </h1>
@@ -155,16 +155,12 @@ export default function ProjectPage() {
             <a className="btn-quiet" href={`/projects/${d.project.id}/share`}>
               Share with a contractor
             </a>
-            <Form method="post">
-              <button className="btn-quiet" name="intent" value="copy">
-                Copy project
-              </button>
-            </Form>
-            <Form method="post">
-              <button className="btn-quiet" name="intent" value={d.project.archived ? "restore" : "archive"}>
-                {d.project.archived ? "Restore" : "Archive"}
-              </button>
-            </Form>
+            <PostButton intent="copy">
+              Copy project
+            </PostButton>
+            <PostButton intent={d.project.archived ? "restore" : "archive"}>
+              {d.project.archived ? "Restore" : "Archive"}
+            </PostButton>
           </div>
         </section>
       ) : null}

@@ -14,6 +14,7 @@ import { resultFlowMax } from "~/lib/projects/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -44,9 +45,7 @@ export default function SelectionReport() {
     <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">
       <header className="flex flex-wrap items-start justify-between gap-3 border-b border-slate-300 pb-3">
         <div>
-          <p className="no-print text-sm">
-            <a href={`/projects/${f.project.id}`}>{f.project.name}</a> › <a href={`/systems/${f.system.id}`}>{f.system.name}</a> ›
-          </p>
+          <Crumbs trail={[[`/projects/${f.project.id}`, f.project.name], [`/systems/${f.system.id}`, f.system.name]]} className="no-print text-sm" />
           <p className="text-xs uppercase tracking-wide text-slate-500">Pump selection report · {d.workspace}</p>
           <h1 className="text-2xl font-bold text-brand-900">{d.title}</h1>
           <p className="text-sm text-slate-700">

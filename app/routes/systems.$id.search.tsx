@@ -13,6 +13,7 @@ import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -114,9 +115,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
       <div>
-        <p className="text-sm">
-          <a href="/projects">Projects</a> › <a href={`/projects/${d.project.id}`}>{d.project.name}</a> › <a href={`/systems/${d.id}`}>{d.name}</a> ›
-        </p>
+        <Crumbs trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name], [`/systems/${d.id}`, d.name]]} />
         <h1 className="text-2xl font-bold text-brand-900">Pumps for {d.duty ? `${fmtFlow(sys, d.duty.flow)} at ${fmtHead(sys, d.duty.head)}` : "this system"}</h1>
       </div>
       <FormError error={(actionData as { error?: string } | undefined)?.error} />

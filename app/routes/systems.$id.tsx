@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from "react";
-import { Form, Link, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
+import { Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
@@ -24,6 +24,8 @@ import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
+import { PostButton } from "~/components/PostButton";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
 
@@ -130,9 +132,7 @@ export default function SystemPage() {
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div>
-          <p className="text-sm">
-            <Link to="/projects">Projects</Link> › <Link to={`/projects/${d.project.id}`}>{d.project.name}</Link> ›
-          </p>
+          <Crumbs trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name]]} />
           <h1 className="text-2xl font-bold text-brand-900">{d.name}</h1>
         </div>
         <div className="no-print flex gap-2">
@@ -195,16 +195,12 @@ export default function SystemPage() {
           <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
           {d.canWrite ? (
             <div className="no-print flex gap-2">
-              <Form method="post">
-                <button className="btn-quiet" name="intent" value="copy">
-                  Copy system
-                </button>
-              </Form>
-              <Form method="post">
-                <button className="btn-quiet" name="intent" value="archive">
-                  Archive system
-                </button>
-              </Form>
+              <PostButton intent="copy">
+                Copy system
+              </PostButton>
+              <PostButton intent="archive">
+                Archive system
+              </PostButton>
             </div>
           ) : null}
         </div>

@@ -23,6 +23,7 @@ import {
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { Crumbs } from "~/components/Crumbs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -144,9 +145,7 @@ export default function Billing() {
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm">
-          <a href="/workspace">{d.workspace.name}</a> ›
-        </p>
+        <Crumbs trail={[["/workspace", d.workspace.name]]} />
         <h1 className="text-2xl font-bold text-brand-900">Plan and billing</h1>
       </div>
 
