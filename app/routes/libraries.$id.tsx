@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries";
@@ -18,6 +18,7 @@ import { CurvePreview } from "~/components/CurvePreview";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { Crumbs } from "~/components/Crumbs";
+import { useFormResult } from "~/components/useFormResult";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -126,8 +127,7 @@ const VIS_LABEL = {
 
 export default function LibraryPage() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
-  const errors = a?.errors ?? {};
+  const { errors, notice } = useFormResult();
   return (
     <div className="space-y-6">
       <div>
@@ -140,7 +140,7 @@ export default function LibraryPage() {
           {d.lib.description ? ` · ${d.lib.description}` : ""}
         </p>
       </div>
-      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
       {d.locked ? (
         <section className="panel">

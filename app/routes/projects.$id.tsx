@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects";
@@ -12,6 +12,7 @@ import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { PostButton } from "~/components/PostButton";
+import { useFormResult } from "~/components/useFormResult";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -69,8 +70,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 
 export default function ProjectPage() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
-  const errors = a?.errors ?? {};
+  const { errors, notice } = useFormResult();
   return (
     <div className="space-y-6">
       <div>
@@ -84,7 +84,7 @@ export default function ProjectPage() {
         </p>
       </div>
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
-      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
       <section className="panel">
         <h2 className="text-lg font-semibold">Systems</h2>

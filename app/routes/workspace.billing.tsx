@@ -1,6 +1,6 @@
 import { useEffect, useRef } from "react";
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData, useNavigation, useRevalidator } from "react-router";
+import { Form, redirect, useLoaderData, useNavigation, useRevalidator } from "react-router";
 import type { Route } from "./+types/workspace.billing";
 import { requireMember } from "~/lib/auth/guards.server";
 import { can } from "~/lib/auth/permissions";
@@ -24,6 +24,7 @@ import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
+import { useFormResult } from "~/components/useFormResult";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -138,7 +139,7 @@ function useWaitForPlan(waiting: boolean) {
 
 export default function Billing() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
+  const { errors, notice } = useFormResult();
   const busy = useNavigation().state === "submitting";
   useWaitForPlan(d.checkout === "done" && d.plan === "free");
   const locked = d.shared.filter((l) => l.access === "locked");
@@ -157,8 +158,8 @@ export default function Billing() {
         </Notice>
       ) : null}
       {d.checkout === "canceled" ? <Notice>Checkout closed without paying. Nothing changed.</Notice> : null}
-      {a?.notice ? <Notice>{a.notice}</Notice> : null}
-      <FormError error={a?.errors?._form} />
+      {notice ? <Notice>{notice}</Notice> : null}
+      <FormError error={errors._form} />
 
       <section className="panel space-y-2" aria-labelledby="plan-h">
         <h2 id="plan-h" className="text-lg font-semibold">

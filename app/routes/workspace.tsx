@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { Form, useActionData, useLoaderData } from "react-router";
+import { Form, useLoaderData } from "react-router";
 import type { Route } from "./+types/workspace";
 import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/workspaces";
 import { requireMember, setCurrentWorkspace } from "~/lib/auth/guards.server";
@@ -10,6 +10,7 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PostButton } from "~/components/PostButton";
 import { ListTable } from "~/components/ListTable";
+import { useFormResult } from "~/components/useFormResult";
 
 export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
 
@@ -85,8 +86,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function Workspace() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string } | undefined;
-  const errors = a?.errors ?? {};
+  const { errors, notice } = useFormResult();
   const admin = can(d.role, "members.manage");
   return (
     <div className="space-y-6">
@@ -97,7 +97,7 @@ export default function Workspace() {
           <a href="/workspace/billing">Plan and billing</a>
         </p>
       </div>
-      {a?.notice ? <Notice>{a.notice}</Notice> : null}
+      {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
 
       {d.workspaces.length > 1 ? (
