@@ -204,31 +204,21 @@ export default function LibraryPage() {
             ) : (
               <div className="grid gap-4 lg:grid-cols-[minmax(18rem,26rem)_1fr]">
                 <div className="max-h-[36rem] overflow-y-auto">
-                  <table className="w-full text-sm" aria-label="Models">
-                    <thead className="sticky top-0 bg-white text-left text-slate-600">
-                      <tr>
-                        <th className="py-1">Model</th>
-                        <th>Curves</th>
-                        <th>Max flow</th>
-                        <th>Max head</th>
+                  <ListTable head={["Model", "Curves", "Max flow", "Max head"]} className="" label="Models" sticky>
+                    {d.models.map((mm) => (
+                      <tr key={mm.id} className={`border-t border-slate-100 ${mm.id === d.modelId ? "bg-brand-50" : ""}`}>
+                        <td className="py-1">
+                          <a href={`?${new URLSearchParams({ ...Object.fromEntries(Object.entries(d.filters).filter(([, x]) => x)), model: String(mm.id) })}`} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
+                            {mm.name}
+                          </a>
+                          <div className="text-xs text-slate-600">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
+                        </td>
+                        <td>{mm.curveCount}</td>
+                        <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>
+                        <td>{fmtHead(d.unitSystem, mm.headMax)}</td>
                       </tr>
-                    </thead>
-                    <tbody>
-                      {d.models.map((mm) => (
-                        <tr key={mm.id} className={`border-t border-slate-100 ${mm.id === d.modelId ? "bg-brand-50" : ""}`}>
-                          <td className="py-1">
-                            <a href={`?${new URLSearchParams({ ...Object.fromEntries(Object.entries(d.filters).filter(([, x]) => x)), model: String(mm.id) })}`} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
-                              {mm.name}
-                            </a>
-                            <div className="text-xs text-slate-600">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
-                          </td>
-                          <td>{mm.curveCount}</td>
-                          <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>
-                          <td>{fmtHead(d.unitSystem, mm.headMax)}</td>
-                        </tr>
-                      ))}
-                    </tbody>
-                  </table>
+                    ))}
+                  </ListTable>
                 </div>
                 <div className="space-y-3">
                   <CurvePreview

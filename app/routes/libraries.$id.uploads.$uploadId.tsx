@@ -316,29 +316,19 @@ export default function UploadPreview() {
           ) : null}
           {d.problemCount ? (
             <div className="mt-4 max-h-96 overflow-y-auto">
-              <table className="w-full text-sm" aria-label="Problems found">
-                <thead className="sticky top-0 bg-white text-left text-slate-600">
-                  <tr>
-                    <th className="py-1">Line</th>
-                    <th>Column</th>
-                    <th>Problem</th>
-                    <th>Curve</th>
+              <ListTable head={["Line", "Column", "Problem", "Curve"]} className="" label="Problems found" sticky>
+                {d.problems.map((p, i) => (
+                  <tr key={i} className="border-t border-slate-100">
+                    <td className="py-0.5">{p.row}</td>
+                    <td>{p.column ?? "—"}</td>
+                    <td className={p.severity === "error" ? "text-fail" : "text-duty-ink"}>
+                      {p.severity === "error" ? "✖ " : "▲ "}
+                      {p.reason}
+                    </td>
+                    <td className="text-xs">{p.curve}</td>
                   </tr>
-                </thead>
-                <tbody>
-                  {d.problems.map((p, i) => (
-                    <tr key={i} className="border-t border-slate-100">
-                      <td className="py-0.5">{p.row}</td>
-                      <td>{p.column ?? "—"}</td>
-                      <td className={p.severity === "error" ? "text-fail" : "text-duty-ink"}>
-                        {p.severity === "error" ? "✖ " : "▲ "}
-                        {p.reason}
-                      </td>
-                      <td className="text-xs">{p.curve}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+                ))}
+              </ListTable>
               {d.problemCount > d.problems.length ? (
                 <p className="text-xs text-slate-500">
                   Showing {d.problems.length} of {d.problemCount} problems.
