@@ -9,8 +9,8 @@ import { libraries, memberships, users, workspaces, type Role } from "../../db/s
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../lib/libraries";
 import { addCandidate, createProject, createSystem, listProjects, selectCandidate } from "../lib/projects";
 import { searchForSystem } from "../lib/projects";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInput } from "../lib/projects/hydraulics";
-import { innerDiameter, material as materialOf } from "../engine";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, tableRun, type SystemInput } from "../lib/projects/hydraulics";
+import { material as materialOf } from "../engine";
 import { demoLibraries } from "../../fixtures/demo";
 import { seedFieldChecks } from "./seed-fieldchecks";
 
@@ -110,7 +110,6 @@ export async function seedProjects(): Promise<number> {
   const [eng] = await db().select().from(users).where(eq(users.email, "engineer@kestrel.example"));
   const v = await viewerFor("kestrel", "engineer", eng.id);
   const have = await listProjects(v);
-  const steel = materialOf("steel");
   const ductile = materialOf("ductile-iron-lined");
   const demos: { project: { name: string; site: string; description: string }; system: string; input: SystemInput }[] = [
     {
@@ -126,8 +125,8 @@ export async function seedProjects(): Promise<number> {
         suctionSurfacePressure: 101325 + 150000,
         suctionStaticHead: 1,
         runs: [
-          { side: "suction", name: "Header to pump", pipeTable: "steel-sch40", nominal: "6", diameter: innerDiameter("steel-sch40", "6"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 12, fittings: [{ id: "elbow-90-standard", count: 3 }, { id: "butterfly-valve-open", count: 1 }, { id: "tee-run", count: 2 }], extraK: 0 },
-          { side: "discharge", name: "Riser and floor branches (index circuit)", pipeTable: "steel-sch40", nominal: "6", diameter: innerDiameter("steel-sch40", "6"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 180, fittings: [{ id: "elbow-90-standard", count: 16 }, { id: "tee-run", count: 8 }, { id: "butterfly-valve-open", count: 3 }, { id: "swing-check", count: 1 }], extraK: 4 },
+          tableRun("suction", "Header to pump", "steel-sch40", "6", "steel", 12, [{ id: "elbow-90-standard", count: 3 }, { id: "butterfly-valve-open", count: 1 }, { id: "tee-run", count: 2 }]),
+          tableRun("discharge", "Riser and floor branches (index circuit)", "steel-sch40", "6", "steel", 180, [{ id: "elbow-90-standard", count: 16 }, { id: "tee-run", count: 8 }, { id: "butterfly-valve-open", count: 3 }, { id: "swing-check", count: 1 }], 4),
         ],
         duty: { flow: 100 * M3H, head: 1 },
         hoursPerYear: 3200,
@@ -146,7 +145,7 @@ export async function seedProjects(): Promise<number> {
         staticHigh: 30,
         suctionStaticHead: 2.5,
         runs: [
-          { side: "suction", name: "Tank outlet", pipeTable: "steel-sch40", nominal: "4", diameter: innerDiameter("steel-sch40", "4"), material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 6, fittings: [{ id: "entrance-sharp", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "elbow-90-standard", count: 1 }], extraK: 0 },
+          tableRun("suction", "Tank outlet", "steel-sch40", "4", "steel", 6, [{ id: "entrance-sharp", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "elbow-90-standard", count: 1 }]),
           { side: "discharge", name: "Rising main", pipeTable: "", nominal: "", diameter: 0.104, material: "ductile-iron-lined", roughness: ductile.roughnessNew, agedRoughness: ductile.roughnessAged, length: 420, fittings: [{ id: "elbow-90-long-radius", count: 6 }, { id: "swing-check", count: 1 }, { id: "gate-valve-open", count: 1 }, { id: "exit", count: 1 }], extraK: 0 },
         ],
         duty: { flow: 40 * M3H, head: 1 },

@@ -5,11 +5,10 @@
 import * as v from "valibot";
 import { describe, expect, it } from "vitest";
 import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
-import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, type CurvePointsIn, type SystemInput } from "./hydraulics";
-import { motorEfficiency, innerDiameter, material } from "~/engine";
+import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, tableRun, type CurvePointsIn, type SystemInput } from "./hydraulics";
+import { motorEfficiency } from "~/engine";
 
 const M3H = 1 / 3600;
-const steel = material("steel");
 
 /** Demo curve in SI (points as stored: m³/s, m, fraction, W, m). */
 function si(c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } {
@@ -29,7 +28,6 @@ const catalogueOf = (model: string) => {
 
 /** A closed chilled-water loop like the demo's "CHW secondary loop" (invented): 6 in steel, 180 m discharge. */
 function chw(dischargeLength = 180): SystemInput {
-  const d6 = innerDiameter("steel-sch40", "6");
   return {
     ...defaultSystemInput(),
     temperatureC: 7,
@@ -40,8 +38,8 @@ function chw(dischargeLength = 180): SystemInput {
     suctionSurfacePressure: 101325 + 150000,
     suctionStaticHead: 1,
     runs: [
-      { side: "suction", name: "Header to pump", pipeTable: "steel-sch40", nominal: "6", diameter: d6, material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: 12, fittings: [{ id: "elbow-90-standard", count: 3 }], extraK: 0 },
-      { side: "discharge", name: "Riser", pipeTable: "steel-sch40", nominal: "6", diameter: d6, material: "steel", roughness: steel.roughnessNew, agedRoughness: steel.roughnessAged, length: dischargeLength, fittings: [{ id: "elbow-90-standard", count: 16 }, { id: "swing-check", count: 1 }], extraK: 4 },
+      tableRun("suction", "Header to pump", "steel-sch40", "6", "steel", 12, [{ id: "elbow-90-standard", count: 3 }]),
+      tableRun("discharge", "Riser", "steel-sch40", "6", "steel", dischargeLength, [{ id: "elbow-90-standard", count: 16 }, { id: "swing-check", count: 1 }], 4),
     ],
     duty: { flow: 100 * M3H, head: 20 },
     hoursPerYear: 3200,

@@ -2,7 +2,7 @@
 // schema, the defaults of a new system and run, and what the engine needs from it (fluid, system
 // spec, the flow range to draw). Pure.
 import * as v from "valibot";
-import { fluidAt, material as materialOf, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
+import { fluidAt, innerDiameter, material as materialOf, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
 
@@ -80,6 +80,12 @@ export const SystemInputSchema = v.object({
 
 export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
 export type PipeRunInput = v.InferOutput<typeof PipeRunSchema>;
+
+/** A run of a catalogue size: inner diameter from the pipe table, new and aged roughness from the material (both as the engine's tables give them). */
+export function tableRun(side: "suction" | "discharge", name: string, pipeTable: string, nominal: string, materialId: string, length: number, fittings: PipeRunInput["fittings"] = [], extraK = 0): PipeRunInput {
+  const m = materialOf(materialId);
+  return { side, name, pipeTable, nominal, diameter: innerDiameter(pipeTable, nominal), material: materialId, roughness: m.roughnessNew, agedRoughness: m.roughnessAged, length, fittings, extraK };
+}
 
 export function newRun(side: "suction" | "discharge", name: string): PipeRunInput {
   const m = materialOf("steel");
