@@ -5,6 +5,7 @@
 import * as v from "valibot";
 import { describe, expect, it } from "vitest";
 import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { demoSystems } from "../../cli/demo-systems";
 import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, tableRun, type CurvePointsIn, type SystemInput } from "./hydraulics";
 import { motorEfficiency } from "~/engine";
 
@@ -26,17 +27,11 @@ const catalogueOf = (model: string) => {
   return { impellerMin: Math.min(...sets.map((c) => c.impellerMm)) / 1000, impellerMax: Math.max(...sets.map((c) => c.impellerMm)) / 1000, ratedSpeed: Math.max(...sets.map((c) => c.speed)) };
 };
 
-/** A closed chilled-water loop like the demo's "CHW secondary loop" (invented): 6 in steel, 180 m discharge. */
+/** The demo's "CHW secondary loop" (invented) with fewer fittings: 6 in steel, 180 m discharge by default. */
 function chw(dischargeLength = 180): SystemInput {
+  const demo = demoSystems().find((d) => d.system === "CHW secondary loop")!.input;
   return {
-    ...defaultSystemInput(),
-    temperatureC: 7,
-    mode: "closed-loop",
-    staticLow: 0,
-    staticHigh: 0,
-    controlHead: 14,
-    suctionSurfacePressure: 101325 + 150000,
-    suctionStaticHead: 1,
+    ...demo,
     runs: [
       tableRun("suction", "Header to pump", "steel-sch40", "6", "steel", 12, [{ id: "elbow-90-standard", count: 3 }]),
       tableRun("discharge", "Riser", "steel-sch40", "6", "steel", dischargeLength, [{ id: "elbow-90-standard", count: 16 }, { id: "swing-check", count: 1 }], 4),
@@ -44,6 +39,7 @@ function chw(dischargeLength = 180): SystemInput {
     duty: { flow: 100 * M3H, head: 20 },
     hoursPerYear: 3200,
     tariffPerKWh: 0.24,
+    npshMargin: defaultSystemInput().npshMargin,
   };
 }
 
