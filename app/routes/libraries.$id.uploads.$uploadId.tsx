@@ -7,11 +7,10 @@ import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/librarie
 import { getUploadMeta } from "~/lib/libraries/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
-import {
-  blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
-  type CellEdit, type Encoding, type Mapping, type NumericField,
-} from "~/lib/import";
+import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, NUMERIC_FIELDS, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
+import { editsFromForm, encodingFromForm, mappingFromForm } from "~/lib/libraries/mapping-form";
+import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { FormError, Notice } from "~/components/forms";
@@ -33,7 +32,7 @@ const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJso
 
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
-  const viewer = { userId: m.user.id, workspace: m.workspace, role: m.role };
+  const viewer = viewerOf(m);
   const libraryId = readId(params.id);
   const uploadId = readId(params.uploadId);
   const up = await getUploadMeta(viewer, libraryId, uploadId);
@@ -51,66 +50,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-/** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */
-function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } {
-  let base: unknown;
-  try {
-    base = JSON.parse(String(form.get("base") ?? ""));
-  } catch {
-    return { error: "The mapping could not be read; reload the page." };
-  }
-  const parsed = v.safeParse(MappingSchema, base);
-  if (!parsed.success) return { error: "The mapping could not be read; reload the page." };
-  const m: Mapping = structuredClone(parsed.output);
-  const layout = form.get("layout");
-  if (layout === "long" || layout === "wide") m.layout = layout;
-  m.columns = m.columns.map((c) => {
-    const field = String(form.get(`field.${c.index}`) ?? c.field) as Mapping["columns"][number]["field"];
-    const unitRaw = String(form.get(`unit.${c.index}`) ?? "");
-    const numeric = (NUMERIC_FIELDS as readonly string[]).includes(field);
-    const allowed = numeric ? (UNITS_BY_FIELD[field as NumericField] as readonly string[]) : [];
-    const unit = numeric ? ((allowed.includes(unitRaw) ? unitRaw : allowed[0]) as Mapping["columns"][number]["unit"]) : null;
-    const changed = field !== c.field || unit !== c.unit;
-    return { ...c, field, unit, unitSource: changed ? "user" : c.unitSource, block: m.layout === "wide" ? c.block : null };
-  });
-  const model = String(form.get("defaultModel") ?? "").trim();
-  const speed = Number(String(form.get("defaultSpeed") ?? "").replace(",", ".") || NaN);
-  const impeller = Number(String(form.get("defaultImpeller") ?? "").replace(",", ".") || NaN);
-  const fluid = String(form.get("fluid") ?? "").trim().slice(0, 120);
-  m.defaults = {
-    model: model || undefined,
-    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: "mm" as const } : {}),
-    fluid: fluid || undefined,
-  };
-  m.fillDownModel = form.get("fillDownModel") === "on";
-  m.fillDownKeys = form.get("fillDownKeys") === "on";
-  const policy = form.get("policy");
-  m.policy = policy === "drop-points" ? "drop-points" : "skip-curves";
-  const encoding = String(form.get("encoding") ?? "");
-  if ((ENCODINGS as readonly string[]).includes(encoding)) m.encoding = encoding as Encoding;
-  const check = v.safeParse(MappingSchema, m);
-  if (!check.success) return { error: `This mapping cannot work: ${check.issues.map((i) => i.message).join("; ")}.` };
-  return { mapping: check.output };
-}
-
-/** The grid's cells ("cell.<line>.<index>") as edits; the service keeps only those that differ from the file. */
-function editsFromForm(form: FormData): CellEdit[] {
-  const edits: CellEdit[] = [];
-  for (const [k, value] of form) {
-    const m = /^cell\.(\d{1,9})\.(\d{1,4})$/.exec(k);
-    if (m && typeof value === "string") edits.push({ line: Number(m[1]), index: Number(m[2]), value });
-  }
-  return edits;
-}
-
 export async function action({ request, params }: Route.ActionArgs) {
   const c = await context(request, params);
   const form = await readFormSafe(request);
   if (form.get("intent") === "fix") {
-    const enc = String(form.get("encoding") ?? "");
     try {
-      const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, editsFromForm(form), (ENCODINGS as readonly string[]).includes(enc) ? (enc as Encoding) : undefined);
+      const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, editsFromForm(form), encodingFromForm(form));
       if (id === null) return { error: "No cell was changed; nothing was saved." };
       throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
     } catch (e) {

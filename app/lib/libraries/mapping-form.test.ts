@@ -1,0 +1,72 @@
+// The mapping page's form read back: edges of every field (bad JSON, an unknown field or unit, NaN,
+// zero and negative defaults, an unknown encoding or policy) and the grid's cell names. Expected
+// values are the product's own rules (mapping-form.ts, MappingSchema), not measurements.
+import { describe, expect, it } from "vitest";
+import { suggestMapping } from "../import";
+import { editsFromForm, encodingFromForm, mappingFromForm } from "./mapping-form";
+
+const base = suggestMapping(["Model", "Speed", "Q [m3/h]", "H [m]"], [], false);
+const form = (o: Record<string, string>) => {
+  const f = new FormData();
+  f.set("base", JSON.stringify(base));
+  for (const [k, v] of Object.entries(o)) f.set(k, v);
+  return f;
+};
+
+describe("mappingFromForm", () => {
+  it("keeps the served mapping when nothing was changed", () => {
+    const r = mappingFromForm(form({}));
+    expect(r.error).toBeUndefined();
+    expect(r.mapping!.columns.map((c) => [c.field, c.unit])).toEqual(base.columns.map((c) => [c.field, c.unit]));
+    expect(r.mapping!.policy).toBe("skip-curves");
+  });
+  it("refuses a base that is not JSON or not a mapping, with a message", () => {
+    const f = form({});
+    f.set("base", "{not json");
+    expect(mappingFromForm(f)).toEqual({ error: "The mapping could not be read; reload the page." });
+    f.set("base", JSON.stringify({ version: 2 }));
+    expect(mappingFromForm(f).error).toMatch(/could not be read/);
+  });
+  it("takes the user's unit only when the field allows it; else the field's first unit, marked as the user's", () => {
+    const q = base.columns.findIndex((c) => c.field === "flow");
+    expect(mappingFromForm(form({ [`unit.${q}`]: "gpm" })).mapping!.columns[q]).toMatchObject({ unit: "gpm", unitSource: "user" });
+    const bogus = mappingFromForm(form({ [`unit.${q}`]: "furlongs" })).mapping!.columns[q];
+    expect(bogus.unit).not.toBe("furlongs");
+  });
+  it("refuses an unknown field name for a column", () => {
+    expect(mappingFromForm(form({ "field.0": "colour" })).error).toMatch(/cannot work/);
+  });
+  it("reads defaults with a decimal comma; NaN, zero and negative numbers are left out", () => {
+    const m = mappingFromForm(form({ defaultModel: "  KX-80 ", defaultSpeed: "2900,5", defaultImpeller: "190" })).mapping!;
+    expect(m.defaults).toMatchObject({ model: "KX-80", speed: 2900.5, impeller: 190, impellerUnit: "mm" });
+    for (const bad of ["NaN", "0", "-5", "Infinity", "abc"]) {
+      const d = mappingFromForm(form({ defaultSpeed: bad, defaultImpeller: bad })).mapping!.defaults;
+      expect(d.speed, bad).toBeUndefined();
+      expect(d.impeller, bad).toBeUndefined();
+    }
+  });
+  it("policy and encoding: only the known values", () => {
+    expect(mappingFromForm(form({ policy: "drop-points" })).mapping!.policy).toBe("drop-points");
+    expect(mappingFromForm(form({ policy: "drop-everything" })).mapping!.policy).toBe("skip-curves");
+    expect(mappingFromForm(form({ encoding: "windows-1252" })).mapping!.encoding).toBe("windows-1252");
+    expect(mappingFromForm(form({ encoding: "ebcdic" })).mapping!.encoding).toBeUndefined();
+    expect(encodingFromForm(form({ encoding: "utf-16le" }))).toBe("utf-16le");
+    expect(encodingFromForm(form({}))).toBeUndefined();
+  });
+});
+
+describe("editsFromForm", () => {
+  it("reads cell.<line>.<index> fields and nothing else", () => {
+    const f = new FormData();
+    f.set("cell.12.3", "1,5");
+    f.set("cell.0.0", "");
+    f.set("cell.x.1", "no");
+    f.set("cell.1234567890.1", "line number too long");
+    f.set("cell.1.12345", "index too long");
+    f.set("note", "kept out");
+    expect(editsFromForm(f)).toEqual([
+      { line: 12, index: 3, value: "1,5" },
+      { line: 0, index: 0, value: "" },
+    ]);
+  });
+});

@@ -1,0 +1,64 @@
+// The mapping page's form, read back (pure): the base mapping the page was served with (JSON), the
+// user's field and unit per column, layout, defaults, fill-down, run-out policy and encoding; and the
+// fix grid's edited cells. Anything unreadable is an error message, never an exception.
+import * as v from "valibot";
+import { ENCODINGS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
+
+/** The encoding the user chose, if it is one we decode. */
+export function encodingFromForm(form: FormData): Encoding | undefined {
+  const enc = String(form.get("encoding") ?? "");
+  return (ENCODINGS as readonly string[]).includes(enc) ? (enc as Encoding) : undefined;
+}
+
+/** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */
+export function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } {
+  let base: unknown;
+  try {
+    base = JSON.parse(String(form.get("base") ?? ""));
+  } catch {
+    return { error: "The mapping could not be read; reload the page." };
+  }
+  const parsed = v.safeParse(MappingSchema, base);
+  if (!parsed.success) return { error: "The mapping could not be read; reload the page." };
+  const m: Mapping = structuredClone(parsed.output);
+  const layout = form.get("layout");
+  if (layout === "long" || layout === "wide") m.layout = layout;
+  m.columns = m.columns.map((c) => {
+    const field = String(form.get(`field.${c.index}`) ?? c.field) as Mapping["columns"][number]["field"];
+    const unitRaw = String(form.get(`unit.${c.index}`) ?? "");
+    const numeric = (NUMERIC_FIELDS as readonly string[]).includes(field);
+    const allowed = numeric ? (UNITS_BY_FIELD[field as NumericField] as readonly string[]) : [];
+    const unit = numeric ? ((allowed.includes(unitRaw) ? unitRaw : allowed[0]) as Mapping["columns"][number]["unit"]) : null;
+    const changed = field !== c.field || unit !== c.unit;
+    return { ...c, field, unit, unitSource: changed ? "user" : c.unitSource, block: m.layout === "wide" ? c.block : null };
+  });
+  const model = String(form.get("defaultModel") ?? "").trim();
+  const speed = Number(String(form.get("defaultSpeed") ?? "").replace(",", ".") || NaN);
+  const impeller = Number(String(form.get("defaultImpeller") ?? "").replace(",", ".") || NaN);
+  const fluid = String(form.get("fluid") ?? "").trim().slice(0, 120);
+  m.defaults = {
+    model: model || undefined,
+    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
+    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: "mm" as const } : {}),
+    fluid: fluid || undefined,
+  };
+  m.fillDownModel = form.get("fillDownModel") === "on";
+  m.fillDownKeys = form.get("fillDownKeys") === "on";
+  const policy = form.get("policy");
+  m.policy = policy === "drop-points" ? "drop-points" : "skip-curves";
+  const encoding = encodingFromForm(form);
+  if (encoding) m.encoding = encoding;
+  const check = v.safeParse(MappingSchema, m);
+  if (!check.success) return { error: `This mapping cannot work: ${check.issues.map((i) => i.message).join("; ")}.` };
+  return { mapping: check.output };
+}
+
+/** The grid's cells ("cell.<line>.<index>") as edits; the service keeps only those that differ from the file. */
+export function editsFromForm(form: FormData): CellEdit[] {
+  const edits: CellEdit[] = [];
+  for (const [k, value] of form) {
+    const m = /^cell\.(\d{1,9})\.(\d{1,4})$/.exec(k);
+    if (m && typeof value === "string") edits.push({ line: Number(m[1]), index: Number(m[2]), value });
+  }
+  return edits;
+}
