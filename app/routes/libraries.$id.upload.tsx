@@ -1,6 +1,7 @@
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.upload";
 import { requireMember } from "~/lib/auth/guards.server";
+import { viewerOf } from "~/lib/auth/viewer.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries";
 import { readId, readFormSafe } from "~/lib/shared/forms.server";
 
@@ -23,7 +24,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const file = form.get("file");
   if (!(file instanceof File)) return fail("Choose a CSV file to upload.", 400);
   try {
-    const uploadId = await storeUpload({ userId: m.user.id, workspace: m.workspace, role: m.role }, id, file);
+    const uploadId = await storeUpload(viewerOf(m), id, file);
     const location = `/libraries/${id}/uploads/${uploadId}`;
     if (wantsJson) return Response.json({ location }, { status: 201 });
     throw redirect(location);
