@@ -3,7 +3,7 @@
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "./units";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
@@ -43,7 +43,7 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
   return parts.length ? ` (${parts.join(", ")})` : "";
 }
 
-export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitSystem; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
+export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitChoice; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
   const ev = view.evaluation;
   const pumps = view.candidates.map(candidateSeries).filter((x): x is PumpSeries => x != null);
   return (
@@ -61,7 +61,7 @@ export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { vie
   );
 }
 
-export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem: UnitSystem }) {
+export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem: UnitChoice }) {
   const ev = view.evaluation;
   if (!ev) return null;
   return (
@@ -143,7 +143,7 @@ function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | n
 const money = (x: number | null | undefined, currency: string | undefined) => (x == null ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
 
 /** Side-by-side figures of the candidates at their operating points. */
-export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitSystem; actions?: (c: Cand) => React.ReactNode }) {
+export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
   if (view.candidates.length === 0) return null;
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],

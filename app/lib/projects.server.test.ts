@@ -11,6 +11,7 @@ import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "./import";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "./auth/guards.server";
+import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -42,7 +43,7 @@ describe("system evaluation (pure)", () => {
   });
 
   test("the form codec round-trips a system through US units", () => {
-    const values = systemFormValues(WORKED, "US");
+    const values = systemFormValues(WORKED, US_UNITS);
     const fd = new FormData();
     fd.set("name", "x");
     for (const [k, v] of Object.entries(values)) if (typeof v === "string") fd.set(k, v);
@@ -51,7 +52,7 @@ describe("system evaluation (pure)", () => {
       for (const [k, v] of Object.entries(r)) if (typeof v === "string") fd.set(`run.${i}.${k}`, v);
       for (const [id, n] of Object.entries(r.fittings)) fd.set(`run.${i}.fit.${id}`, String(n));
     });
-    const back = readSystemForm(fd, "US");
+    const back = readSystemForm(fd, US_UNITS);
     expect(back.errors).toEqual({});
     // Five significant digits in the form: relative 1e-4 (by construction of show()).
     expect(back.input!.runs[0].diameter).toBeCloseTo(0.2, 4);
@@ -70,7 +71,7 @@ describe("system evaluation (pure)", () => {
     fd.set("runCount", "1");
     fd.set("run.0.diameter", "-3");
     fd.set("run.0.length", "10");
-    const r = readSystemForm(fd, "SI");
+    const r = readSystemForm(fd, SI_UNITS);
     expect(r.input).toBeNull();
     expect(Object.keys(r.errors)).toEqual(expect.arrayContaining(["name", "temperature", "dutyHead", "run.0.diameter"]));
   });

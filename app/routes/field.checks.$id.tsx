@@ -8,7 +8,7 @@ import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
 import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
@@ -32,13 +32,13 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     versions: c.versions,
     latest: c.latest,
     justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
-    unitSystem: m.user.unitSystem as UnitSystem,
+    unitSystem: m.user.units,
   };
 }
 
 const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
 
-function gaugeText(sys: UnitSystem, g: Readings["suction"], asGauge: number) {
+function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
   const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
   const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against 101.325 kPa)` : "";

@@ -7,7 +7,6 @@ import { can } from "~/lib/auth/permissions";
 import { checkPage } from "~/lib/fieldchecks/page.server";
 import { submitCheckForm } from "~/lib/fieldchecks/submit.server";
 import type { CheckFields } from "~/lib/fieldchecks";
-import type { UnitSystem } from "~/components/units";
 import { FieldCaution } from "~/components/fieldcheck";
 import { CheckForm } from "~/components/field/CheckForm";
 import { CheckHistoryList, SelectionSummary } from "~/components/field/SelectionSummary";
@@ -28,9 +27,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request, "fieldcheck.read");
   const selectionId = readId(params.id);
   const url = new URL(request.url);
-  const page = await checkPage(viewerOf(member), selectionId, member.user.unitSystem as UnitSystem, readQuery(url, "amend", 20));
+  const page = await checkPage(viewerOf(member), selectionId, member.user.units, readQuery(url, "amend", 20));
   const owner = `${member.user.id}/${member.workspace.id}`;
-  return { ...page, owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.unitSystem as UnitSystem };
+  return { ...page, owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {

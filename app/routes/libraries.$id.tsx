@@ -4,8 +4,8 @@ import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { toSI, UNIT_SYSTEMS } from "~/engine";
-import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
+import { toSI } from "~/engine";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf } from "~/components/units";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
@@ -43,11 +43,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const writer = owner && can(m.role, "library.write");
   const url = new URL(request.url);
   const query = readQuery(url, LibraryQuery);
-  const sys = m.user.unitSystem as "SI" | "US";
+  const sys = m.user.units;
   const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
   const numIn = (k: "flow" | "head", q: "flow" | "head") => {
     const x = Number(qp(k).replace(",", "."));
-    return Number.isFinite(x) && x > 0 ? toSI(q, UNIT_SYSTEMS[sys][q], x) : undefined;
+    return Number.isFinite(x) && x > 0 ? toSI(q, sys[q], x) : undefined;
   };
   const sort = qp("sort");
   const filters = {
@@ -182,11 +182,11 @@ export default function LibraryPage() {
                 <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-20" />
               </label>
               <label>
-                <span className="label">Reaches flow ({d.unitSystem === "US" ? "gpm" : "m³/h"})</span>
+                <span className="label">Reaches flow ({labelOf(d.unitSystem, "flow")})</span>
                 <input name="flow" inputMode="decimal" defaultValue={d.filters.flow} className="field w-24" />
               </label>
               <label>
-                <span className="label">and head ({d.unitSystem === "US" ? "ft" : "m"})</span>
+                <span className="label">and head ({labelOf(d.unitSystem, "head")})</span>
                 <input name="head" inputMode="decimal" defaultValue={d.filters.head} className="field w-20" />
               </label>
               <label>

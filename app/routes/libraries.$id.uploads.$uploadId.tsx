@@ -43,7 +43,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256, source: c.upload.source },
-    unitSystem: c.m.user.unitSystem,
+    unitSystem: c.m.user.units,
     correctedFrom: readQuery(request.url, v.object({ from: QueryId })).from,
     ...(await analysis(c)),
   };

@@ -22,7 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     systems: await listSystems(viewer, id),
     selections: await listSelections(viewer, { projectId: id }),
     canWrite: can(m.role, "project.write"),
-    unitSystem: m.user.unitSystem,
+    unitSystem: m.user.units,
   };
 }
 

@@ -5,7 +5,7 @@ import { getSelection } from "~/lib/projects.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
-import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
@@ -19,7 +19,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
   const s = await getSelection(viewerOf(m), id);
-  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name };
+  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.units, workspace: m.workspace.name };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;

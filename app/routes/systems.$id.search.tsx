@@ -9,7 +9,7 @@ import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryText } from "~
 import { DEFAULT_ADJUSTMENT } from "~/lib/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { toSI } from "~/engine";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/components/units";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
@@ -31,7 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
   const url = new URL(request.url);
-  const sys = m.user.unitSystem as UnitSystem;
+  const sys = m.user.units;
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
   const maxPower = Number(q("maxPower").replace(",", "."));
@@ -41,7 +41,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys === "US" ? "hp" : "kW", maxPower) : undefined,
+    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys.power, maxPower) : undefined,
     methods: methods.length ? methods : undefined,
     allowBeyondCatalogue: query.beyond,
   };
@@ -126,7 +126,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
           <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-24" />
         </label>
         <label>
-          <span className="label">Max shaft power ({sys === "US" ? "hp" : "kW"})</span>
+          <span className="label">Max shaft power ({labelOf(sys, "power")})</span>
           <input name="maxPower" inputMode="decimal" defaultValue={d.filters.maxPower} className="field w-24" />
         </label>
         <fieldset>

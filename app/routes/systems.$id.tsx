@@ -11,7 +11,7 @@ import { workbenchView, type WorkbenchView } from "~/lib/workbench-view";
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { readAdjustForm } from "~/lib/projects/adjust-form";
-import { readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/system-form";
+import { readSystemForm, systemFormValues, type FormErrors } from "~/lib/system-form";
 import { FormError, Notice } from "~/components/forms";
 import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
@@ -34,7 +34,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     project: { id: bench.system.projectId, name: bench.system.projectName },
     input: bench.system.input,
     view: workbenchView(bench),
-    unitSystem: m.user.unitSystem as UnitSystem,
+    unitSystem: m.user.units,
     canWrite: can(m.role, "project.write"),
     canSelect: can(m.role, "selection.write"),
     currency: await workspaceCurrency(m.workspace.id),
@@ -49,7 +49,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const intent = String(form.get("intent") ?? "save");
   const needs = intent === "select" ? "selection.write" : "project.write";
   if (!can(m.role, needs)) throw new Response(`Your role (${m.role}) cannot do this.`, { status: 403 });
-  const sys = m.user.unitSystem as UnitSystem;
+  const sys = m.user.units;
   switch (intent) {
     case "save": {
       const { input, name, errors } = readSystemForm(form, sys);

@@ -24,6 +24,9 @@ import {
 } from "./scales.ts";
 import { sampleProps } from "./sample.ts";
 import type { DutyChartProps, PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
+const US_UNITS = UNIT_SYSTEMS.US;
 
 const render = (p: DutyChartProps) => renderToStaticMarkup(createElement(DutyChart, p));
 const count = (html: string, needle: string) => html.split(needle).length - 1;
@@ -47,7 +50,7 @@ const linePump = (over: Partial<PumpSeries> = {}): PumpSeries => ({
 });
 
 const base = (over: Partial<DutyChartProps> = {}): DutyChartProps => ({
-  unitSystem: "SI",
+  unitSystem: SI_UNITS,
   title: "Test chart title",
   description: "Test chart description",
   pumps: [linePump()],
@@ -137,8 +140,8 @@ describe("other pure helpers", () => {
 });
 
 describe("conversion to display units", () => {
-  const si = displayUnits("SI");
-  const us = displayUnits("US");
+  const si = displayUnits(SI_UNITS);
+  const us = displayUnits(US_UNITS);
   it("0.1 m³/s is 360 m³/h (1 h = 3600 s, SI definition)", () => {
     expect(flowToDisplay(0.1, si)).toBeCloseTo(360, 9);
     expect(si.flow.label).toBe("m³/h");
@@ -276,7 +279,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(siPoints).toContain("75.0"); // %
     expect(siPoints).toContain("40.0"); // kW
 
-    const us = render({ ...props, unitSystem: "US" });
+    const us = render({ ...props, unitSystem: US_UNITS });
     const usPoints = section(us, 'data-table="points"', "table");
     expect(usPoints).toContain("Flow (gpm)");
     expect(usPoints).toContain("1585.0");
@@ -314,7 +317,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(readout).toContain("Flow 360.0 m³/h");
     expect(readout).toContain(">30.0<");
     expect(readout).toContain(">—<"); // short pump ends at 180 m³/h
-    const us = render({ ...props, unitSystem: "US" });
+    const us = render({ ...props, unitSystem: US_UNITS });
     expect(us).toContain(">98.4<");
 
     expect(render(base())).not.toContain('data-mark="crosshair"');

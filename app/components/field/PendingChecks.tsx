@@ -4,7 +4,7 @@
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
-import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+import { fmtFlow, fmtHead, type UnitChoice } from "../units";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
 export function usePendingChecks(owner: string, selectionId: number | null) {
@@ -28,7 +28,7 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
   return { queued, sent, refresh, send, setSent };
 }
 
-export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitSystem; showSelection?: boolean }) {
+export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean }) {
   const { queued, sent, refresh, send, setSent } = props.pending;
   const sys = props.unitSystem;
   if (!queued.length && !sent.length) return null;

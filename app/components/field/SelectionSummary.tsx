@@ -1,7 +1,7 @@
 // The head of a selection's check page (what was selected) and its list of recorded checks.
 import { VerdictBadge } from "../fieldcheck";
 import type { Verdict } from "~/lib/fieldchecks";
-import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+import { fmtFlow, fmtHead, type UnitChoice } from "../units";
 
 export type SummarySelection = {
   id: number;
@@ -17,7 +17,7 @@ export type SummarySelection = {
   dutyPumps: number;
 };
 
-export function SelectionSummary({ selection, unitSystem }: { selection: SummarySelection; unitSystem: UnitSystem }) {
+export function SelectionSummary({ selection, unitSystem }: { selection: SummarySelection; unitSystem: UnitChoice }) {
   return (
     <header>
       <p className="text-sm">
@@ -63,7 +63,7 @@ export type HistoryEntry = {
   flowSource: string;
 };
 
-export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitSystem }) {
+export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitChoice }) {
   return (
     <section className="panel">
       <div className="flex items-center justify-between gap-2">

@@ -1,0 +1,41 @@
+/**
+ * Numbers and dates for reading, in one place (server and browser give the same text: fixed
+ * locale, times in UTC, so a page hydrates without a difference).
+ */
+
+/** A number for reading (not a form field): fixed decimals chosen per magnitude; "—" when missing. */
+export function fmtNum(x: number | null | undefined, digits?: number): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  const d = digits ?? (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
+  return x.toFixed(d);
+}
+
+/** A fraction as a percentage, e.g. 0.723 → "72.3 %". */
+export const fmtPct = (x: number | null | undefined, digits = 1) => (x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`);
+
+const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+/** A whole number with thousands separators, e.g. 12345 → "12,345". */
+export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
+
+const DATE_PARTS = new Intl.DateTimeFormat("en-GB", {
+  timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23",
+});
+
+function parts(when: string | Date | null | undefined): Record<string, string> | null {
+  if (when == null || when === "") return null;
+  const d = when instanceof Date ? when : new Date(when);
+  if (Number.isNaN(d.getTime())) return null;
+  return Object.fromEntries(DATE_PARTS.formatToParts(d).map((p) => [p.type, p.value]));
+}
+
+/** A date (UTC) as "2026-12-02"; "—" when missing or not a date. */
+export function fmtDate(when: string | Date | null | undefined): string {
+  const p = parts(when);
+  return p ? `${p.year}-${p.month}-${p.day}` : "—";
+}
+
+/** A moment (UTC) as "2026-12-02 14:09"; the caller adds " UTC" where the page says so. */
+export function fmtDateTime(when: string | Date | null | undefined): string {
+  const p = parts(when);
+  return p ? `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}` : "—";
+}
