@@ -8,7 +8,6 @@ export {
   G0, STANDARD_ATMOSPHERE, UNITS, UNIT_SYSTEMS, FACTORS, toSI, fromSI, convert, unitDef, unitLabel,
   type Quantity, type UnitDef, type UnitPreset,
 } from "./units.ts";
-export { qt, QUANTITY_TOKEN } from "./quantityText.ts";
 export {
   waterProperties, fluidAt, customFluid, checkFluid, if97Region1Density, if97SaturationPressure, iapwsViscosity,
   WATER_RANGE_C, type Fluid, type FluidSpec, type WaterProperties,

@@ -2,6 +2,8 @@
 // workspace; ids from elsewhere answer 404, never data.
 import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
 import { data } from "react-router";
+import { qt } from "~/engine/quantityText";
+import { renderUnits, SI_UNITS, type UnitChoice } from "./shared/units";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
@@ -213,7 +215,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
       return {
         id: r.c.id,
         curveSetId: r.c.curveSetId,
-        label: `${set.model}${set.speed ? ` · ${Math.round(set.speed)} rpm` : ""}${set.impellerDiameter ? ` · Ø${Math.round(set.impellerDiameter * 1000)} mm` : ""}`,
+        label: `${set.model}${set.speed ? ` · ${Math.round(set.speed)} rpm` : ""}${set.impellerDiameter ? ` · Ø${qt("diameter", set.impellerDiameter)}` : ""}`,
         model: set.model,
         library: r.libraryName,
         adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
@@ -311,7 +313,7 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
 /** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
-export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units: UnitChoice = SI_UNITS) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
   const cand = bench.candidates.find((x) => x.id === c.id);
@@ -353,7 +355,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: title || cand.label,
+      title: title || renderUnits(cand.label, units), // the label's diameter in the selecting user's units
       note,
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,

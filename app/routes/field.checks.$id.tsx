@@ -10,6 +10,7 @@ import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -24,7 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
     selection: { id: c.selection.id, title: c.selection.title, projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
     readings: c.readings,
-    result: c.result,
+    result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
     recordedBy: c.recordedBy,
     recordedIn: c.recordedIn,
     mayAmend: c.mayAmend && can(m.role, "fieldcheck.write"),
@@ -41,7 +42,7 @@ const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(
 function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
   const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
-  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against 101.325 kPa)` : "";
+  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against ${fmtPressure(sys, 101325)})` : "";
   return `${read}${used}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
 }
 
@@ -220,7 +221,7 @@ export default function FieldCheckRecord() {
           </dd>
           <dt className="text-slate-600">Fluid</dt>
           <dd>
-            {r.fluid.name} · ρ {fmtNum(r.fluid.density, 1)} kg/m³
+            {r.fluid.name} · ρ {fmtQ(sys, "density", r.fluid.density)}
           </dd>
           <dt className="text-slate-600">Grade</dt>
           <dd>

@@ -13,6 +13,7 @@ import { CheckHistoryList, SelectionSummary } from "~/components/field/Selection
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 // GET /field/selections/:id — the check form (phone first, works offline once opened) and the
 // selection's check history.
@@ -29,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const page = await checkPage(viewerOf(member), selectionId, member.user.units, readQuery(url, "amend", 20));
   const owner = `${member.user.id}/${member.workspace.id}`;
-  return { ...page, owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
+  return { ...renderDeep(page, member.user.units), owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {

@@ -7,6 +7,7 @@ import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
 
@@ -16,7 +17,7 @@ export const links: Route.LinksFunction = () => [{ rel: "manifest", href: "/fiel
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const h = await fieldHome(viewerOf(m));
-  return { ...h, workspace: m.workspace.name, role: m.role, unitSystem: m.user.units, owner: `${m.user.id}/${m.workspace.id}` };
+  return { ...renderDeep(h, m.user.units), workspace: m.workspace.name, role: m.role, unitSystem: m.user.units, owner: `${m.user.id}/${m.workspace.id}` };
 }
 
 export default function FieldHome() {

@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { toSI } from "~/engine";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf } from "~/components/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf, renderUnits } from "~/components/units";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
@@ -234,13 +234,13 @@ export default function LibraryPage() {
                   <CurvePreview
                     unitSystem={d.unitSystem}
                     title={`Curves of ${d.modelName}`}
-                    curves={d.curves.map((c) => ({ id: String(c.id), label: curveLabel(c.speed, c.impellerDiameter), points: c.points }))}
+                    curves={d.curves.map((c) => ({ id: String(c.id), label: renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem), points: c.points }))}
                   />
                   <details>
                     <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
                     {d.curves.map((c) => (
-                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${curveLabel(c.speed, c.impellerDiameter)}`}>
-                        <caption className="text-left font-semibold">{curveLabel(c.speed, c.impellerDiameter)}</caption>
+                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}`}>
+                        <caption className="text-left font-semibold">{renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}</caption>
                         <thead className="text-left text-slate-600">
                           <tr>
                             <th>Flow</th>

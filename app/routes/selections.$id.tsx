@@ -12,6 +12,7 @@ import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/workbench-view";
 import { resultFlowMax } from "~/lib/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -19,7 +20,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
   const s = await getSelection(viewerOf(m), id);
-  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.units, workspace: m.workspace.name };
+  // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
+  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
@@ -100,7 +102,7 @@ export default function SelectionReport() {
             <dd>
               {f.pump.library.name} revision {f.pump.library.revision}
               {f.pump.speed ? ` · ${Math.round(f.pump.speed)} rpm` : ""}
-              {f.pump.impellerDiameter ? ` · Ø${(f.pump.impellerDiameter * 1000).toFixed(0)} mm` : ""}
+              {f.pump.impellerDiameter ? ` · Ø${fmtQ(sys, "diameter", f.pump.impellerDiameter)}` : ""}
             </dd>
           </dl>
         </div>
@@ -110,7 +112,7 @@ export default function SelectionReport() {
             <dt className="text-slate-600">Fluid</dt>
             <dd>
               {input.fluid.kind === "water" ? "Water" : input.fluid.name || "Custom liquid"} at {fmtQ(sys, "temperature", input.temperatureC, 1)}
-              {f.systemCurve ? ` · ρ ${fmtNum(f.systemCurve.fluid.density, 1)} kg/m³ · ν ${f.systemCurve.fluid.kinematicViscosity.toExponential(3)} m²/s` : ""}
+              {f.systemCurve ? ` · ρ ${fmtQ(sys, "density", f.systemCurve.fluid.density)} · ν ${fmtQ(sys, "kinematicViscosity", f.systemCurve.fluid.kinematicViscosity)}` : ""}
             </dd>
             <dt className="text-slate-600">Kind</dt>
             <dd>{input.mode === "closed-loop" ? `closed loop, control head ${fmtHead(sys, input.controlHead)}` : "open, static lift"}</dd>
@@ -193,7 +195,7 @@ export default function SelectionReport() {
         <ul className="mt-2 list-disc space-y-1 pl-5">
           <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
           <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
-          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
+          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at {fmtPressure(sys, 101325)}.</li>
           <li>System band: least and most static lift × new and aged pipe roughness.</li>
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
           <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>

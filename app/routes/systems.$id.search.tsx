@@ -14,6 +14,7 @@ import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -48,7 +49,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const viewer = viewerOf(m);
   const res = await searchForSystem(viewer, id, filters);
   const current = await listCandidates(viewer, id);
-  return {
+  return renderDeep({ // quantities in messages, reasons and "why this rank" in the user's units
     id,
     name: res.system.name,
     project: { id: res.system.projectId, name: res.system.projectName },
@@ -82,7 +83,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     candidateCount: current.length,
     canWrite: can(m.role, "project.write"),
     filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
-  };
+  }, sys);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {

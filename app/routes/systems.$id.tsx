@@ -21,6 +21,7 @@ import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset"
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
 
@@ -33,7 +34,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     name: bench.system.name,
     project: { id: bench.system.projectId, name: bench.system.projectName },
     input: bench.system.input,
-    view: workbenchView(bench),
+    view: renderDeep(workbenchView(bench), m.user.units),
     unitSystem: m.user.units,
     canWrite: can(m.role, "project.write"),
     canSelect: can(m.role, "selection.write"),
@@ -53,7 +54,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   switch (intent) {
     case "save": {
       const { input, name, errors } = readSystemForm(form, sys);
-      if (!input) return { errors, notice: null };
+      if (!input) return { errors: renderDeep(errors, sys), notice: null };
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
       return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved." };
@@ -81,7 +82,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
-      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000));
+      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000), sys);
       throw redirect(`/selections/${sid}`);
     }
   }
@@ -117,7 +118,7 @@ export default function SystemPage() {
   };
   const view = (draft && live) || d.view;
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
-  const errors = { ...(a?.errors ?? {}), ...liveErrors };
+  const errors = { ...(a?.errors ?? {}), ...renderDeep(liveErrors, d.unitSystem) };
   const f = systemFormValues(d.input, d.unitSystem);
   const ro = !d.canWrite;
   return (

@@ -4,7 +4,7 @@
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
-import { fmtFlow, fmtHead, type UnitChoice } from "../units";
+import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "../units";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
 export function usePendingChecks(owner: string, selectionId: number | null) {
@@ -52,7 +52,7 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 {c.createdAt.slice(0, 16).replace("T", " ")}
               </p>
               <p className="text-slate-700">
-                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {c.local.verdictText}. The server works it out again when it
+                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}. The server works it out again when it
                 is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
               </p>
               {c.message ? <p className="font-semibold text-fail">{c.message}</p> : null}

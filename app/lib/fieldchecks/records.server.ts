@@ -17,6 +17,7 @@ import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
 import { appUrl } from "../auth/accounts.server";
 import { deliveredSentence, evaluateCheck } from "./evaluate";
+import { renderUnits, unitsOf } from "../shared/units";
 import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
 import type { CheckResult } from "./result";
 import { PhotoRejected, type PhotoIn } from "./photos.server";
@@ -283,12 +284,12 @@ export async function recordFieldCheck(viewer: Viewer, selectionId: number, inpu
 async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fieldSelection>>, checkId: number, r: CheckResult, kind: "new" | "amended") {
   const userId = sel.createdBy ?? sel.projectCreatedBy;
   if (!userId) return null;
-  const [to] = await db().select({ email: users.email, name: users.name }).from(users).where(eq(users.id, userId));
+  const [to] = await db().select({ email: users.email, name: users.name, unitSystem: users.unitSystem, units: users.units }).from(users).where(eq(users.id, userId));
   if (!to) return null;
   const [me] = await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, viewer.userId));
   const checkedBy = `${me?.name || me?.email || "A member"} (${viewer.workspace.name})`;
   const link = `${appUrl()}/field/checks/${checkId}`;
-  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${deliveredSentence(r)}`;
+  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${renderUnits(deliveredSentence(r), unitsOf(to.unitSystem, to.units))}`; // in the engineer's units
   let msg;
   if (r.verdict === "unknown") {
     // The shared template has words for pass / marginal / fail only; without a flow meter there is no verdict.

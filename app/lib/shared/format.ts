@@ -3,12 +3,8 @@
  * locale, times in UTC, so a page hydrates without a difference).
  */
 
-/** A number for reading (not a form field): fixed decimals chosen per magnitude; "—" when missing. */
-export function fmtNum(x: number | null | undefined, digits?: number): string {
-  if (x == null || !Number.isFinite(x)) return "—";
-  const d = digits ?? (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
-  return x.toFixed(d);
-}
+/** A number for reading: fixed decimals per magnitude (the engine's, so quantity tokens read the same). */
+export { fmtNum } from "~/engine/quantityText";
 
 /** A fraction as a percentage, e.g. 0.723 → "72.3 %". */
 export const fmtPct = (x: number | null | undefined, digits = 1) => (x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`);

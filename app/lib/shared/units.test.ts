@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { qt } from "~/engine";
+import { qt } from "~/engine/quantityText";
 import { fmtQ, picksOf, presetOf, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
 import { fmtDate, fmtDateTime, fmtInt, fmtNum } from "./format";
 

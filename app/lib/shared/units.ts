@@ -5,8 +5,8 @@
  * unknown id falls back to the preset. Formatters and the renderer of quantity tokens (`qt()` in
  * the engine: `⟦flow|0.0111⟧`) live here too, so every page, report and e-mail follows the choice.
  */
-import { fromSI, QUANTITY_TOKEN, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
-import { fmtNum } from "./format";
+import { fromSI, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
+import { fmtQuantity, renderQuantities } from "~/engine/quantityText";
 
 export { fmtNum, fmtPct } from "./format";
 
@@ -80,34 +80,15 @@ export const toChosen = (u: UnitChoice, q: Quantity, si: number): number => from
 export const fromChosen = (u: UnitChoice, q: Quantity, value: number): number => toSI(q, u[q], value);
 
 /** An SI value as text in the chosen unit, e.g. `"42.0 m³/h"`; "—" for a missing or non-finite value. */
-export function fmtQ(u: UnitChoice, q: Quantity, si: number | null | undefined, digits?: number): string {
-  if (si == null || !Number.isFinite(si)) return "—";
-  const unit = u[q];
-  return `${fmtNum(fromSI(q, unit, si), digits)} ${unitLabel(q, unit)}`;
-}
+export const fmtQ = fmtQuantity;
 
 export const fmtFlow = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "flow", si);
 export const fmtHead = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "head", si);
 export const fmtPower = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "power", si);
 export const fmtPressure = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "pressure", si);
 
-const isQuantity = (x: string): x is Quantity => Object.prototype.hasOwnProperty.call(UNITS, x);
-
-/**
- * Renders the quantity tokens of a text in the chosen units. A token of an unknown quantity or
- * with a value that is no number stays as written (visible, so a wrong token is noticed); NaN
- * renders as "—"; text without tokens comes back unchanged.
- */
-export function renderUnits(text: string, u: UnitChoice): string {
-  if (!text.includes("⟦")) return text;
-  return text.replace(QUANTITY_TOKEN, (whole, q: string, raw: string) => {
-    if (!isQuantity(q)) return whole;
-    if (raw === "NaN") return "—";
-    const x = raw.trim() === "" ? NaN : Number(raw);
-    if (!Number.isFinite(x)) return whole;
-    return fmtQ(u, q, x);
-  });
-}
+/** Renders the quantity tokens (`qt()` in the engine) of a text in the chosen units; text without tokens is unchanged. */
+export const renderUnits = renderQuantities;
 
 /**
  * Renders every string inside a value (objects, arrays) — for a loader's answer or a stored
