@@ -3,7 +3,6 @@
 import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
 import { data } from "react-router";
 import { qt } from "~/engine/quantityText";
-import { renderUnits, SI_UNITS, type UnitChoice } from "./shared/units";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
@@ -313,7 +312,7 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
 /** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
-export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units: UnitChoice = SI_UNITS) {
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
   const cand = bench.candidates.find((x) => x.id === c.id);
@@ -355,7 +354,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: title || renderUnits(cand.label, units), // the label's diameter in the selecting user's units
+      title: title || cand.label, // the label's impeller diameter stays a quantity token: each reader sees their units
       note,
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,

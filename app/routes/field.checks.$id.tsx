@@ -10,7 +10,7 @@ import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { renderDeep } from "~/lib/shared/units";
+import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -23,7 +23,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   return {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
-    selection: { id: c.selection.id, title: c.selection.title, projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
+    selection: { id: c.selection.id, title: renderUnits(c.selection.title, m.user.units), projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
     readings: c.readings,
     result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
     recordedBy: c.recordedBy,

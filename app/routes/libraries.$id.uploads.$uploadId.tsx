@@ -8,7 +8,7 @@ import { getUploadMeta } from "~/lib/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/upload-analysis.server";
 import type { UploadSummary } from "~/lib/upload-analysis";
 import {
-  blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
+  blockLabel, DIAMETER_UNITS, ENCODING_LABEL, ENCODINGS, FIELDS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD,
   type CellEdit, type Encoding, type Mapping, type NumericField,
 } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/upload-fix.server";
@@ -19,15 +19,18 @@ import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep, type UnitChoice } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
 /** The analysis runs in a worker thread and is kept per upload (app/lib/upload-analysis.server.ts). */
-const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
-  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping).catch((e) => {
-    if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
-    throw e;
-  });
+const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null }; m: { user: { units: UnitChoice } } }, mapping?: unknown) =>
+  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping)
+    .then((s) => renderDeep(s, c.m.user.units)) // curve names carry the impeller as a quantity token
+    .catch((e) => {
+      if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
+      throw e;
+    });
 
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
@@ -48,6 +51,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     ...(await analysis(c)),
   };
 }
+
+/** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
+const impellerUnitOf = (x: unknown): (typeof DIAMETER_UNITS)[number] => DIAMETER_UNITS.find((u) => u === x) ?? "mm";
 
 /** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */
 function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } {
@@ -78,7 +84,7 @@ function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } 
   m.defaults = {
     model: model || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: "mm" as const } : {}),
+    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: impellerUnitOf(form.get("defaultImpellerUnit")) } : {}),
     fluid: fluid || undefined,
   };
   m.fillDownModel = form.get("fillDownModel") === "on";
@@ -232,11 +238,12 @@ export default function UploadPreview() {
               <input name="defaultSpeed" inputMode="decimal" defaultValue={d.mapping.defaults.speed ?? ""} className="field w-24" />
             </label>
             <label className="flex items-center gap-2">
-              Impeller Ø when the file has none (mm)
+              Impeller Ø when the file has none ({impellerUnitOf(l.unitSystem.diameter)})
+              <input type="hidden" name="defaultImpellerUnit" value={impellerUnitOf(l.unitSystem.diameter)} />
               <input
                 name="defaultImpeller"
                 inputMode="decimal"
-                defaultValue={d.mapping.defaults.impeller !== undefined && d.mapping.defaults.impellerUnit === "mm" ? d.mapping.defaults.impeller : ""}
+                defaultValue={d.mapping.defaults.impeller !== undefined && d.mapping.defaults.impellerUnit === impellerUnitOf(l.unitSystem.diameter) ? d.mapping.defaults.impeller : ""}
                 className="field w-24"
               />
             </label>

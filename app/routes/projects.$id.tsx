@@ -9,6 +9,7 @@ import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -20,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     project: { id: p.id, name: p.name, site: p.site, description: p.description, archived: p.archivedAt != null },
     systems: await listSystems(viewer, id),
-    selections: await listSelections(viewer, { projectId: id }),
+    selections: renderDeep(await listSelections(viewer, { projectId: id }), m.user.units), // titles name the impeller in the reader's units
     canWrite: can(m.role, "project.write"),
     unitSystem: m.user.units,
   };

@@ -12,7 +12,7 @@ import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/workbench-view";
 import { resultFlowMax } from "~/lib/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { renderDeep } from "~/lib/shared/units";
+import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -21,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = readId(params.id);
   const s = await getSelection(viewerOf(m), id);
   // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
-  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name };
+  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
