@@ -11,6 +11,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { UnitsFieldset } from "~/components/UnitsFieldset";
 import { PRESET_IDS, SETTABLE } from "~/lib/shared/units";
 import { UNITS, type Quantity } from "~/engine";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
 
@@ -74,7 +75,7 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const fmt = (iso: string | null) => (iso ? new Date(iso).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never");
+const fmt = (iso: string | null) => (iso ? `${fmtDateTime(iso)} UTC` : "never");
 
 export default function Account() {
   const d = useLoaderData<typeof loader>();

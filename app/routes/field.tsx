@@ -8,6 +8,7 @@ import { PendingChecks, usePendingChecks } from "~/components/field/PendingCheck
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { renderDeep } from "~/lib/shared/units";
+import { fmtDate } from "~/lib/shared/format";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
 
@@ -76,7 +77,7 @@ export default function FieldHome() {
                   {c.selection} · check {c.id} v{c.version}
                 </a>
                 <span className="text-slate-600">
-                  {c.createdAt.slice(0, 10)} · {c.byName || "—"} ({c.byWorkspace})
+                  {fmtDate(c.createdAt)} · {c.byName || "—"} ({c.byWorkspace})
                 </span>
                 <VerdictBadge verdict={c.verdict} grade={c.grade} />
               </li>

@@ -16,6 +16,7 @@ import { ImportList } from "~/components/ImportList";
 import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -289,7 +290,7 @@ export default function LibraryPage() {
                         {r.number}
                         {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
                       </td>
-                      <td>{r.at.slice(0, 16).replace("T", " ")} UTC</td>
+                      <td>{fmtDateTime(r.at)} UTC</td>
                       <td>{r.curves}</td>
                       <td>{r.points}</td>
                       <td>{r.skipped}</td>
@@ -322,7 +323,7 @@ export default function LibraryPage() {
                 {d.pending.map((p) => (
                   <li key={p.id}>
                     <a href={`/libraries/${d.lib.id}/uploads/${p.id}`}>{p.filename}</a> · {fmtBytes(p.sizeBytes)} · uploaded{" "}
-                    {p.createdAt.slice(0, 16).replace("T", " ")} UTC
+                    {fmtDateTime(p.createdAt)} UTC
                   </li>
                 ))}
               </ul>

@@ -10,6 +10,7 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { renderDeep } from "~/lib/shared/units";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -131,7 +132,7 @@ export default function ProjectPage() {
                 <a href={`/selections/${s.id}`} className="font-semibold">
                   {s.title}
                 </a>{" "}
-                for {s.systemName} · {s.createdAt.slice(0, 10)}
+                for {s.systemName} · {fmtDate(s.createdAt)}
               </li>
             ))}
           </ul>

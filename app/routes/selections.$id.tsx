@@ -13,6 +13,7 @@ import type { WorkbenchView } from "~/lib/workbench-view";
 import { resultFlowMax } from "~/lib/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
+import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -48,7 +49,7 @@ export default function SelectionReport() {
           <p className="text-xs uppercase tracking-wide text-slate-500">Pump selection report · {d.workspace}</p>
           <h1 className="text-2xl font-bold text-brand-900">{d.title}</h1>
           <p className="text-sm text-slate-700">
-            {f.project.name} · {f.system.name} · selected {d.createdAt.slice(0, 10)} · report no. DM-{String(d.id).padStart(5, "0")}
+            {f.project.name} · {f.system.name} · selected {fmtDate(d.createdAt)} · report no. DM-{String(d.id).padStart(5, "0")}
           </p>
         </div>
         <div className="no-print flex flex-wrap gap-2">
@@ -202,7 +203,7 @@ export default function SelectionReport() {
           <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
           <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
           <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
-          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {f.frozenAt.slice(0, 16).replace("T", " ")} UTC; later library changes do not alter this report.</li>
+          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {fmtDateTime(f.frozenAt)} UTC; later library changes do not alter this report.</li>
         </ul>
       </section>
 

@@ -22,6 +22,7 @@ import {
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -100,7 +101,6 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const fmtDate = (iso: string) => iso.slice(0, 10);
 const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
 
 /** After checkout the webhook may land a moment later: look again for a while, then stop. */

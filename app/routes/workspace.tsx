@@ -8,6 +8,7 @@ import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.serv
 import { data } from "react-router";
 import { Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
 
@@ -213,7 +214,7 @@ export default function Workspace() {
               {d.invites.map((i) => (
                 <li key={i.id} className="flex items-center justify-between border-t border-slate-100 py-1">
                   <span>
-                    {i.email} as {i.role} · expires {i.expiresAt.slice(0, 10)}
+                    {i.email} as {i.role} · expires {fmtDate(i.expiresAt)}
                   </span>
                   <Form method="post">
                     <input type="hidden" name="invitationId" value={i.id} />

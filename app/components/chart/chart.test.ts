@@ -142,6 +142,16 @@ describe("other pure helpers", () => {
 describe("conversion to display units", () => {
   const si = displayUnits(SI_UNITS);
   const us = displayUnits(US_UNITS);
+  it("each axis follows its own quantity's choice: L/s flow, ft head, hp power (0.1 m³/s = 100 L/s, 30 m = 98.43 ft, 1 hp = 745.69987 W, NIST SP 811)", () => {
+    const mixed = displayUnits({ ...SI_UNITS, flow: "L/s", head: "ft", power: "hp" });
+    expect([mixed.flow.label, mixed.head.label, mixed.npsh.label, mixed.power.label]).toEqual(["L/s", "ft", "ft", "hp"]);
+    expect(flowToDisplay(0.1, mixed)).toBeCloseTo(100, 9);
+    expect(valueToDisplay("head", 30, mixed)).toBeCloseTo(30 / 0.3048, 9);
+    expect(valueToDisplay("power", 745.69987158, mixed)).toBeCloseTo(1, 6);
+    const model = buildChartModel({ ...sampleProps(), unitSystem: { ...SI_UNITS, flow: "L/s", head: "ft" } });
+    expect(JSON.stringify(model)).toContain("L/s");
+    expect(JSON.stringify(model)).not.toContain("m³/h");
+  });
   it("0.1 m³/s is 360 m³/h (1 h = 3600 s, SI definition)", () => {
     expect(flowToDisplay(0.1, si)).toBeCloseTo(360, 9);
     expect(si.flow.label).toBe("m³/h");

@@ -5,6 +5,7 @@ import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
 import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "../units";
+import { fmtDateTime } from "~/lib/shared/format";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
 export function usePendingChecks(owner: string, selectionId: number | null) {
@@ -49,7 +50,7 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 <span className="font-semibold">{c.status === "waiting" ? "Waiting to send" : c.status === "conflict" ? "Conflict: not recorded" : "Refused by the server"}</span>
                 {" · "}
                 {props.showSelection ? `${c.selectionTitle} · ` : ""}
-                {c.createdAt.slice(0, 16).replace("T", " ")}
+                {fmtDateTime(c.createdAt)}
               </p>
               <p className="text-slate-700">
                 Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}. The server works it out again when it

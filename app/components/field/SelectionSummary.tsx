@@ -2,6 +2,7 @@
 import { VerdictBadge } from "../fieldcheck";
 import type { Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "../units";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export type SummarySelection = {
   id: number;
@@ -81,7 +82,7 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
           {history.map((check) => (
             <li key={check.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <a href={`/field/checks/${check.id}`} className="inline-block py-2">
-                Check {check.id} v{check.version} · {check.createdAt.slice(0, 16).replace("T", " ")}
+                Check {check.id} v{check.version} · {fmtDateTime(check.createdAt)}
                 {check.superseded ? " (amended later)" : ""}
               </a>
               <span className="text-slate-600">

@@ -19,7 +19,9 @@ const DATE_PARTS = new Intl.DateTimeFormat("en-GB", {
 
 function parts(when: string | Date | null | undefined): Record<string, string> | null {
   if (when == null || when === "") return null;
-  const d = when instanceof Date ? when : new Date(when);
+  // A zone-less "2026-12-02 14:09:00" (how the database connector gives DATETIME) is UTC, as stored; never the browser's zone.
+  const text = typeof when === "string" && /^\d{4}-\d{2}-\d{2}([ T]\d{2}:\d{2}(:\d{2}(\.\d+)?)?)?$/.test(when) ? `${when.replace(" ", "T")}${when.length > 10 ? "Z" : "T00:00Z"}` : when;
+  const d = text instanceof Date ? text : new Date(text);
   if (Number.isNaN(d.getTime())) return null;
   return Object.fromEntries(DATE_PARTS.formatToParts(d).map((p) => [p.type, p.value]));
 }

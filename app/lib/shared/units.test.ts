@@ -80,5 +80,8 @@ describe("format", () => {
     expect(fmtDateTime("2026-12-02T09:05:59.000Z")).toBe("2026-12-02 09:05");
     expect(fmtDateTime(new Date("2026-01-31T00:00:00Z"))).toBe("2026-01-31 00:00");
     expect(fmtDate("not a date")).toBe("—");
+    // Zone-less database text is UTC as stored (not the machine's zone).
+    expect(fmtDateTime("2026-12-02 23:30:00.000")).toBe("2026-12-02 23:30");
+    expect(fmtDate("2026-12-02")).toBe("2026-12-02");
   });
 });
