@@ -108,7 +108,7 @@ export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CL
   if (poles !== 2 && poles !== 4) throw new EngineInputError("poles", "must be 2 or 4");
   const row = IE_EFFICIENCY_TABLE[poles][ieClass];
   const warnings: EngineWarning[] = [];
-  if (kw > 1000) throw new EngineInputError("rating", "is above 1000 kW, the end of the IEC 60034-30-1 table");
+  if (kw > 1000) throw new EngineInputError("rating", `is above ${qt("power", 1e6)}, the end of the IEC 60034-30-1 table`);
   if (kw < IE_KW[0]) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} is below the table (${qt("power", 750)}): the ${qt("power", 750)} efficiency is used` });
   // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
   let i = 0;

@@ -53,7 +53,7 @@ export const PipeRunSchema = v.object({
   pipeTable: v.pipe(v.string(), v.maxLength(40)),
   nominal: v.pipe(v.string(), v.maxLength(20)),
   /** Inner diameter, m. */
-  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, "Inner diameter above 5 m? Check the unit.")),
+  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, `Inner diameter above ${qt("diameter", 5)}? Check the unit.`)),
   material: v.pipe(v.string(), v.maxLength(40)),
   /** Absolute roughness new and aged, m. */
   roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, `Roughness above ${qt("roughness", 0.05)}? Check the unit.`)),
