@@ -40,7 +40,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const outcome = await submitCheckForm(viewerOf(member), selectionId, form);
   if (outcome.ok) throw redirect(`/field/checks/${outcome.id}?recorded=1`);
   const errors = "conflict" in outcome ? { _form: outcome.conflict } : outcome.errors;
-  return data({ errors, fields: outcome.fields }, { status: outcome.status });
+  return data({ errors: renderDeep(errors, member.user.units), fields: outcome.fields }, { status: outcome.status });
 }
 
 export default function FieldSelection() {
@@ -57,7 +57,7 @@ export default function FieldSelection() {
       <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={page.unitSystem} />
       {page.mayWrite ? (
-        <CheckForm selection={selection} owner={page.owner} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
+        <CheckForm selection={selection} owner={page.owner} units={page.unitSystem} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
       ) : (
         <p className="panel text-sm">Your role can read field checks but not record them.</p>
       )}

@@ -56,7 +56,7 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}. The server works it out again when it
                 is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
               </p>
-              {c.message ? <p className="font-semibold text-fail">{c.message}</p> : null}
+              {c.message ? <p className="font-semibold text-fail">{renderUnits(c.message, sys)}</p> : null}
               {c.status === "conflict" ? (
                 <button
                   type="button"
