@@ -11,7 +11,7 @@ import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "./import";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "./auth/guards.server";
-import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
+import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -136,6 +136,15 @@ describe("projects, candidates and selections", () => {
     await adjustCandidate(eng, added.id, { ...DEFAULT_ADJUSTMENT, method: "none" });
     const again = await getSelection(eng, selId);
     expect(again.frozen.result.ratio).toBe(sel.frozen.result.ratio);
+    // The title as the form showed it (the label in the selecting user's units) is kept as the label with its
+    // token, so a reader in other units sees their own; a title the user typed is kept as typed.
+    expect(c.label).toMatch(/Ø⟦diameter\|[\d.e-]+⟧$/); // the demo curves name their impeller
+    const shown = renderUnits(c.label, US_UNITS);
+    expect(shown).toMatch(/Ø\d+\.\d+ in$/);
+    const asShown = await getSelection(eng, await selectCandidate(eng, added.id, shown, "", US_UNITS));
+    expect(asShown.title).toBe(c.label);
+    expect(renderUnits(asShown.title, SI_UNITS)).toMatch(/Ø\d+(\.\d)? mm$/);
+    expect((await getSelection(eng, await selectCandidate(eng, added.id, "Pump A", "", US_UNITS))).title).toBe("Pump A");
   });
 
   test(`at most ${MAX_CANDIDATES} candidates, none twice`, async () => {

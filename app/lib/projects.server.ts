@@ -3,6 +3,7 @@
 import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
 import { data } from "react-router";
 import { qt } from "~/engine/quantityText";
+import { renderUnits, type UnitChoice } from "./shared/units";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
@@ -311,8 +312,12 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
 // ── Selections ──────────────────────────────────────────────────────────────────────────────
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
-/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
-export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
+/**
+ * Freezes a candidate: system inputs, curve points, library revision, adjustment and every result.
+ * A blank title, or the label exactly as the form showed it in the selecting user's `units`, is stored as the
+ * label itself (its impeller a quantity token), so every reader sees it in their own units.
+ */
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
   const cand = bench.candidates.find((x) => x.id === c.id);
@@ -354,7 +359,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: title || cand.label, // the label's impeller diameter stays a quantity token: each reader sees their units
+      title: !title || (units && title === renderUnits(cand.label, units)) ? cand.label : title,
       note,
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,

@@ -82,7 +82,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
-      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000));
+      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000), sys);
       throw redirect(`/selections/${sid}`);
     }
   }
