@@ -283,11 +283,10 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
   const difference = (input.duty.head - governingHead) / governingHead;
   const differs = Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
   const q = qt("flow", input.duty.flow);
-  const m = (h: number) => qt("head", h);
   const message = differs
-    ? `The typed duty head ${m(input.duty.head)} differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${m(governingHead)} at ${edge} (${m(designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
-    : `The typed duty head ${m(input.duty.head)} agrees within 3 % with the system's ${m(governingHead)} at ${q} (${edge}).`;
-  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${m(governingHead)}, ${edge}); the pump search uses the typed duty head (${m(input.duty.head)}).`;
+    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
+    : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
+  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
   return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
 }
 

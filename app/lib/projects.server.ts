@@ -2,8 +2,6 @@
 // workspace; ids from elsewhere answer 404, never data.
 import { and, asc, desc, eq, inArray, isNull, isNotNull, count } from "drizzle-orm";
 import { data } from "react-router";
-import { qt } from "~/engine/quantityText";
-import { renderUnits, type UnitChoice } from "./shared/units";
 import * as v from "valibot";
 import { db, withTransaction } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
@@ -23,6 +21,7 @@ import {
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./projects/energy";
+import { candidateLabel, selectionTitle, type UnitChoice } from "./projects/labels";
 import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "./libraries.server";
 
 export const MAX_CANDIDATES = 6;
@@ -215,7 +214,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
       return {
         id: r.c.id,
         curveSetId: r.c.curveSetId,
-        label: `${set.model}${set.speed ? ` · ${Math.round(set.speed)} rpm` : ""}${set.impellerDiameter ? ` · Ø${qt("diameter", set.impellerDiameter)}` : ""}`,
+        label: candidateLabel(set),
         model: set.model,
         library: r.libraryName,
         adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
@@ -306,17 +305,12 @@ export const catalogueOf = (s: Pick<LibraryCurveSet, "impellerMin" | "impellerMa
   impellerMax: s.impellerMax ?? null,
   ratedSpeed: s.ratedSpeed ?? null,
 });
-
 // ── Duty-point search: app/lib/projects/search.server.ts ───────────────────────────────────
 
 // ── Selections ──────────────────────────────────────────────────────────────────────────────
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
-/**
- * Freezes a candidate: system inputs, curve points, library revision, adjustment and every result.
- * A blank title, or the label exactly as the form showed it in the selecting user's `units`, is stored as the
- * label itself (its impeller a quantity token), so every reader sees it in their own units.
- */
+/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result (title: `selectionTitle`). */
 export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
@@ -359,7 +353,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: !title || (units && title === renderUnits(cand.label, units)) ? cand.label : title,
+      title: selectionTitle(title, cand.label, units),
       note,
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,
