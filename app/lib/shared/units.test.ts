@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { qt } from "~/engine/quantityText";
-import { fmtQ, picksOf, presetOf, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
+import { unitLabel } from "~/engine";
+import { fmtQ, picksOf, presetOf, QUANTITIES, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
 import { fmtDate, fmtDateTime, fmtInt, fmtNum } from "./format";
 
 describe("unitsOf", () => {
@@ -44,6 +45,14 @@ describe("renderUnits", () => {
     // 20 °C = 68 °F (exact).
     expect(renderUnits(`Water ${qt("temperature", 20)}`, US_UNITS)).toBe("Water 68.0 °F");
     expect(renderUnits(qt("velocity", 1.61), US_UNITS)).toBe("5.28 ft/s");
+  });
+  it("parses a token of every quantity and writes it in that quantity's chosen unit", () => {
+    // 2 SI units of each quantity, in the US preset: the same conversion as the formatters (factors: NIST SP 811).
+    for (const q of QUANTITIES) {
+      const out = renderUnits(`[${qt(q, 2)}]`, US_UNITS);
+      expect(out, q).toBe(`[${fmtQ(US_UNITS, q, 2)}]`);
+      expect(out.endsWith(` ${unitLabel(q, US_UNITS[q])}]`), q).toBe(true);
+    }
   });
   it("rounds by magnitude in the shown unit", () => {
     expect(renderUnits(qt("head", 123.456), SI_UNITS)).toBe("123 m");
