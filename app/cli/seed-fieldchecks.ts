@@ -1,5 +1,6 @@
 // Demo data for field checks, idempotent: both Kestrel projects shared with Lowmoor Commissioning,
 // and one demo check recorded by Lowmoor's contractor on the first selection (no e-mail sent).
+import { SI_UNITS } from "~/lib/shared/units";
 import { and, eq } from "drizzle-orm";
 import { db } from "../../db/client.server";
 import { fieldChecks, projects, projectShares, selections, users, workspaces } from "../../db/schema";
@@ -52,7 +53,7 @@ export async function seedFieldChecks(): Promise<{ shared: number; checks: numbe
   const rho = fluidOf({ ...f.system.input, temperatureC: base.temperatureC }).density;
   const curveHead = probe.engine.curveHead ?? op.head;
   base.discharge.pressure = Math.round((curveHead * 0.98 - probe.delivered.head) * rho * G0);
-  const fields = { ...blankFields("SI"), sPressure: "25", dPressure: (base.discharge.pressure / 1000).toFixed(1), sAccuracy: "2.5", dAccuracy: "2.5", sElevation: "0.3", dElevation: "0.9", sDiameter: (s * 1000).toFixed(1), dDiameter: (d * 1000).toFixed(1), flow: (flow * 3600).toFixed(2), flowAccuracy: "2", rpm: base.speed.mode === "rpm" ? String(base.speed.rpm) : "", temperature: String(base.temperatureC) };
+  const fields = { ...blankFields(SI_UNITS), sPressure: "25", dPressure: (base.discharge.pressure / 1000).toFixed(1), sAccuracy: "2.5", dAccuracy: "2.5", sElevation: "0.3", dElevation: "0.9", sDiameter: (s * 1000).toFixed(1), dDiameter: (d * 1000).toFixed(1), flow: (flow * 3600).toFixed(2), flowAccuracy: "2", rpm: base.speed.mode === "rpm" ? String(base.speed.rpm) : "", temperature: String(base.temperatureC) };
   base.discharge.pressure = Number(fields.dPressure) * 1000;
   base.flow = Number(fields.flow) / 3600;
   await recordFieldCheck(viewer, target.id, { readings: base, fields, notes: "Demo check at handover (invented readings).", gradeId: "2B" }, [], { notify: false });

@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Form } from "react-router";
 import type { CandidateEnergy as Energy } from "~/lib/projects/energy";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/components/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 
 type Cand = { id: number; label: string; energy?: Energy | null };
@@ -16,7 +16,7 @@ export const energyRows = (currency: string): [string, (c: Cand) => React.ReactN
   ["Life-cycle cost (present value)", (c) => (c.energy?.lcc ? `${moneyText(c.energy.lcc.total, currency)} over ${c.energy.lcc.yearly.length} years` : "—")],
 ];
 
-export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitSystem; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
+export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
   if (candidates.length === 0) return null;
   const first = candidates.find((c) => c.energy)?.energy;
   return (
@@ -49,7 +49,7 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
   );
 }
 
-export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitSystem; currency: string; canWrite?: boolean; error?: string }) {
+export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitChoice; currency: string; canWrite?: boolean; error?: string }) {
   const e = c.energy;
   return (
     <div className="space-y-1" data-testid={`cycle-${c.id}`}>

@@ -3,6 +3,7 @@
 import { useEffect } from "react";
 import { useRevalidator } from "react-router";
 import type { ImportView } from "~/lib/libraries/import-view";
+import { fmtDateTime, fmtInt } from "~/lib/shared/format";
 
 export type ImportRow = Omit<ImportView, "uploadId">;
 
@@ -36,9 +37,9 @@ export function ImportList({ imports, refreshHref, highlight }: { imports: Impor
           return (
             <li key={i.id} data-testid={`import-${i.id}`} data-status={i.status} className={i.id === highlight ? "font-semibold" : ""}>
               <span>
-                Import {i.id} ({new Date(i.createdAt).toISOString().slice(0, 16).replace("T", " ")} UTC): {STATUS[i.status]}
+                Import {i.id} ({fmtDateTime(i.createdAt)} UTC): {STATUS[i.status]}
                 {i.status === "done" && i.revisionNumber ? ` as revision ${i.revisionNumber}` : ""} ·{" "}
-                {i.status === "done" ? `${i.pointsTotal.toLocaleString("en-GB")} points` : `${i.pointsWritten.toLocaleString("en-GB")} of ${i.pointsTotal.toLocaleString("en-GB")} points written`}
+                {i.status === "done" ? `${fmtInt(i.pointsTotal)} points` : `${fmtInt(i.pointsWritten)} of ${fmtInt(i.pointsTotal)} points written`}
                 {i.status === "running" ? " (kept only when all are written)" : ""}
               </span>
               <div className="mt-1 h-2 w-full max-w-md rounded bg-slate-100" role="progressbar" aria-label={`Import ${i.id} progress`} aria-valuemin={0} aria-valuemax={100} aria-valuenow={i.status === "done" ? 100 : pct}>

@@ -2,6 +2,7 @@
 // year 0 is the purchase price, each later year adds that year's discounted energy cost.
 import { scaleLinear } from "d3-scale";
 import { line } from "d3-shape";
+import { fmtInt } from "~/lib/shared/format";
 
 export type LifeCycleSeries = { id: number; label: string; cumulative: number[] };
 
@@ -26,7 +27,7 @@ export function LifeCycleChart({ series, currency, title }: { series: LifeCycleS
           <g key={`y${t}`}>
             <line x1={m.left} x2={width - m.right} y1={y(t)} y2={y(t)} stroke="#e2e8f0" />
             <text x={m.left - 6} y={y(t)} dy="0.32em" textAnchor="end" fontSize="11" fill="#475569">
-              {t.toLocaleString("en-GB")}
+              {fmtInt(t)}
             </text>
           </g>
         ))}
@@ -49,7 +50,7 @@ export function LifeCycleChart({ series, currency, title }: { series: LifeCycleS
         {shown.map((s, i) => (
           <span key={s.id} className="inline-flex items-center gap-1">
             <span className="inline-block h-0.5 w-4" style={{ background: COLOURS[i % COLOURS.length] }} />
-            {s.label}: {Math.round(s.cumulative[s.cumulative.length - 1]).toLocaleString("en-GB")} {currency}
+            {s.label}: {fmtInt(Math.round(s.cumulative[s.cumulative.length - 1]))} {currency}
           </span>
         ))}
       </figcaption>

@@ -2,9 +2,9 @@
 import type { CandidateEnergy } from "~/lib/projects/energy";
 import { CandidateCycle } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
-import type { UnitSystem } from "~/components/units";
+import type { UnitChoice } from "~/components/units";
 
-export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitSystem; currency: string }) {
+export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitChoice; currency: string }) {
   const e = c.energy;
   if (!e) return null; // selections frozen before load profiles have none
   return (

@@ -2,7 +2,7 @@
 // frozen selection; checks come later). Each links to its own page at /field/checks/:id.
 import type { Verdict } from "~/lib/fieldchecks";
 import { VerdictBadge } from "./fieldcheck";
-import { fmtFlow, fmtHead, type UnitSystem } from "./units";
+import { fmtFlow, fmtHead, type UnitChoice } from "./units";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it. */
 export type SelectionCheckRow = {
@@ -21,7 +21,7 @@ export type SelectionCheckRow = {
   rule: string;
 };
 
-export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { checks: SelectionCheckRow[]; unitSystem: UnitSystem; selectionId: number }) {
+export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { checks: SelectionCheckRow[]; unitSystem: UnitChoice; selectionId: number }) {
   return (
     <section className="no-print panel text-sm" aria-labelledby="field-checks-h">
       <h2 id="field-checks-h" className="font-semibold">

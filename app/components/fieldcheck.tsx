@@ -5,7 +5,7 @@ import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { VERDICT_TEXT, type CheckResult, type Verdict } from "~/lib/fieldchecks";
-import { fmtFlow, fmtHead, type UnitSystem } from "./units";
+import { fmtFlow, fmtHead, type UnitChoice } from "./units";
 
 export function FieldCaution() {
   return (
@@ -77,7 +77,7 @@ export function VerdictBadge({ verdict, grade, large }: { verdict: Verdict; grad
  * meets the system curve (when the system curve is drawn), the delivered point from the readings as
  * its own mark, the design duty and (without a flow meter) the flow band.
  */
-export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; unitSystem: UnitSystem; compact?: boolean }) {
+export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; unitSystem: UnitChoice; compact?: boolean }) {
   const c = r.chart;
   // Operating points on the system curve, from the stored (sampled) curves: before, the chart passed
   // the delivered reading as the measured curve's "operating point" and none for the curve as selected,

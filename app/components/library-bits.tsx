@@ -1,3 +1,5 @@
+import { qt } from "~/engine/quantityText";
+
 export function AccessBadge({ access, visibility }: { access: "owner" | "open" | "locked"; visibility: "private" | "workspace" | "shared" }) {
   if (access === "locked")
     return (
@@ -15,9 +17,10 @@ export function AccessBadge({ access, visibility }: { access: "owner" | "open" |
 
 export const fmtBytes = (n: number) => (n > 1048576 ? `${(n / 1048576).toFixed(1)} MB` : `${Math.max(1, Math.round(n / 1024))} kB`);
 
+/** "2900 rpm · Ø250 mm" with the diameter as a quantity token (render with `renderUnits`). */
 export function curveLabel(speed: number | null, diameter: number | null): string {
   const parts = [];
   if (speed) parts.push(`${Math.round(speed)} rpm`);
-  if (diameter) parts.push(`Ø${Math.round(diameter * 1000)} mm`);
+  if (diameter) parts.push(`Ø${qt("diameter", diameter)}`);
   return parts.join(" · ") || "curve";
 }

@@ -3,14 +3,14 @@
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitSystem } from "./units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "./units";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
 
 type Cand = WorkbenchView["candidates"][number];
 
-export function candidateSeries(c: Cand, i: number): PumpSeries | null {
+export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeries | null {
   const r = c.result;
   if (!r) return null;
   const pick = (k: "efficiency" | "power" | "npshr") => {
@@ -19,7 +19,7 @@ export function candidateSeries(c: Cand, i: number): PumpSeries | null {
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c)} — ${r.verdict ? verdictLabel(r.verdict.status) : "no duty to judge"}`,
+    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? verdictLabel(r.verdict.status) : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
@@ -34,18 +34,19 @@ export function candidateSeries(c: Cand, i: number): PumpSeries | null {
   };
 }
 
-export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }): string {
+/** How the candidate runs, in words, with the trimmed diameter in the reader's units. */
+export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }, units: UnitChoice): string {
   const a = c.adjustment;
   const parts: string[] = [];
   if (a.method === "speed") parts.push(`at ${fmtNum((c.result?.ratio ?? 1) * 100, 1)} % speed${c.result?.speed ? ` (${Math.round(c.result.speed)} rpm)` : ""}`);
-  if (a.method === "trim") parts.push(`trimmed to ${c.result?.diameter ? `Ø${(c.result.diameter * 1000).toFixed(0)} mm` : `${fmtNum((c.result?.ratio ?? 1) * 100, 1)} %`}`);
+  if (a.method === "trim") parts.push(`trimmed to ${c.result?.diameter ? `Ø${fmtQ(units, "diameter", c.result.diameter)}` : `${fmtNum((c.result?.ratio ?? 1) * 100, 1)} %`}`);
   if (a.arrangement !== "single") parts.push(`${a.dutyPumps} in ${a.arrangement}${a.standbyPumps ? ` + ${a.standbyPumps} standby` : ""}`);
   return parts.length ? ` (${parts.join(", ")})` : "";
 }
 
-export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitSystem; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
+export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitChoice; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
   const ev = view.evaluation;
-  const pumps = view.candidates.map(candidateSeries).filter((x): x is PumpSeries => x != null);
+  const pumps = view.candidates.map((c, i) => candidateSeries(c, i, unitSystem)).filter((x): x is PumpSeries => x != null);
   return (
     <DutyChart
       unitSystem={unitSystem}
@@ -61,7 +62,7 @@ export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { vie
   );
 }
 
-export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem: UnitSystem }) {
+export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem: UnitChoice }) {
   const ev = view.evaluation;
   if (!ev) return null;
   return (
@@ -143,11 +144,11 @@ function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | n
 const money = (x: number | null | undefined, currency: string | undefined) => (x == null ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
 
 /** Side-by-side figures of the candidates at their operating points. */
-export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitSystem; actions?: (c: Cand) => React.ReactNode }) {
+export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
   if (view.candidates.length === 0) return null;
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
-    ["Adjustment", (c) => adjustmentText(c).replace(/^ \(|\)$/g, "") || "as published"],
+    ["Adjustment", (c) => adjustmentText(c, unitSystem).replace(/^ \(|\)$/g, "") || "as published"],
     ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],

@@ -14,6 +14,7 @@ import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, 
 import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
+import { qt } from "./quantityText.ts";
 
 /** Impeller trim law. */
 export type TrimLaw = "linear" | "square";
@@ -82,9 +83,9 @@ function trimWarnings(c: PumpCurve, ratio: number): EngineWarning[] {
   if (c.impellerDiameter !== null) {
     const d = c.impellerDiameter * ratio;
     if (c.minDiameter !== null && d < c.minDiameter * (1 - 1e-9)) w.push({ code: "below-min-diameter", parameter: "ratio",
-      message: `trimmed diameter ${(d * 1000).toFixed(1)} mm is below the model's minimum ${(c.minDiameter * 1000).toFixed(1)} mm` });
+      message: `trimmed diameter ${qt("diameter", d)} is below the model's minimum ${qt("diameter", c.minDiameter)}` });
     if (c.maxDiameter !== null && d > c.maxDiameter * (1 + 1e-9)) w.push({ code: "above-max-diameter", parameter: "ratio",
-      message: `diameter ${(d * 1000).toFixed(1)} mm is above the model's maximum ${(c.maxDiameter * 1000).toFixed(1)} mm` });
+      message: `diameter ${qt("diameter", d)} is above the model's maximum ${qt("diameter", c.maxDiameter)}` });
   }
   return w;
 }

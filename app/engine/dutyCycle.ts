@@ -29,6 +29,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
+import { qt } from "./quantityText.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -144,7 +145,8 @@ export interface DutyCycleInput {
   minSpeedRatio?: number;
 }
 
-const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
+const m3h = (q: number) => qt("flow", q);
+const m = (h: number) => qt("head", h);
 
 /**
  * Operating point, speed, efficiencies, electrical input and energy at each step, and the total per year.
@@ -197,14 +199,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
       if (hp === null) return none("beyond-curve", `${m3h(q)} is outside the pump's curve (${m3h(curve.flowMin)}–${m3h(curve.flowMax)}) at fixed speed`);
-      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${m3h(q)} the pump gives ${hp.toFixed(2)} m, below the system's ${hSys.toFixed(2)} m: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${m3h(q)} the pump gives ${m(hp)}, below the system's ${m(hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       head = hp;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
     } else {
       const f = q / qDesign;
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
-      if (!(head > 0)) return none("beyond-curve", `the control asks for ${head.toFixed(2)} m at ${m3h(q)}: no pumping needed at this step`);
+      if (!(head > 0)) return none("beyond-curve", `the control asks for ${m(head)} at ${m3h(q)}: no pumping needed at this step`);
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
@@ -216,7 +218,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         n = minSpeed;
         lowest = true;
       } else if (sol.status !== "ok" || sol.ratio === null) {
-        return none("beyond-curve", `${m3h(q)} at ${head.toFixed(2)} m: ${sol.message}`, head);
+        return none("beyond-curve", `${m3h(q)} at ${m(head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);

@@ -15,6 +15,7 @@ import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
+import { qt } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -130,7 +131,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
   const fluid = checkFluid(input.fluid);
   const flow = requireNonNegative("flow", input.flow);
   const curveHead = evalCubic(c.head, flow);
-  if (curveHead === null) throw new EngineInputError("flow", `is outside the curve (${c.flowMin}–${c.flowMax} m³/s)`);
+  if (curveHead === null) throw new EngineInputError("flow", `is outside the curve (${qt("flow", c.flowMin)}–${qt("flow", c.flowMax)})`);
   const head = input.head === undefined ? curveHead : requireNonNegative("head", input.head);
   const warnings: EngineWarning[] = [];
   const rho = fluid.density;
@@ -154,7 +155,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     let status: "ok" | "low-margin" | "cavitation-risk" | "unknown" = "unknown";
     if (required !== null) status = available < required ? "cavitation-risk" : (marginRatio as number) < requiredMargin ? "low-margin" : "ok";
     if (available <= 0) status = "cavitation-risk";
-    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${available.toFixed(2)} m is below NPSHr${required !== null ? ` ${required.toFixed(2)} m` : ""}: cavitation risk` });
+    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${qt("head", available)} is below NPSHr${required !== null ? ` ${qt("head", required)}` : ""}: cavitation risk` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${(marginRatio as number).toFixed(2)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
     npsh = { available, required, marginRatio, requiredMargin, status };
@@ -167,7 +168,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     const serviceFactor = requirePositive("motor.serviceFactor", input.motor.serviceFactor ?? 1);
     const limit = rating * serviceFactor;
     const nonOverloading = maxPower ? maxPower.power <= limit : null;
-    if (nonOverloading === false) warnings.push({ code: "motor-overload", message: `largest power on the curve ${(maxPower!.power / 1000).toFixed(2)} kW exceeds motor rating × service factor ${(limit / 1000).toFixed(2)} kW` });
+    if (nonOverloading === false) warnings.push({ code: "motor-overload", message: `largest power on the curve ${qt("power", maxPower!.power)} exceeds motor rating × service factor ${qt("power", limit)}` });
     motor = { rating, serviceFactor, limit, nonOverloading, loadAtDuty: shaftPower !== null ? shaftPower / rating : null };
   }
 

@@ -19,6 +19,7 @@
  */
 import { requireFinite, requireInRange, requirePositive, requireNonNegative, EngineInputError } from "./errors.ts";
 import { STANDARD_ATMOSPHERE } from "./units.ts";
+import { qt } from "./quantityText.ts";
 
 /** A fluid state at one temperature, SI units. */
 export interface Fluid {
@@ -158,7 +159,7 @@ export function waterProperties(temperatureC: number): WaterProperties {
   if (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max) {
     throw new EngineInputError(
       "temperatureC",
-      `water properties cover ${WATER_RANGE_C.min}–${WATER_RANGE_C.max} °C (got ${temperatureC}); use a user-defined fluid`,
+      `water properties cover ${qt("temperature", WATER_RANGE_C.min)}–${qt("temperature", WATER_RANGE_C.max)} (got ${qt("temperature", temperatureC)}); use a user-defined fluid`,
     );
   }
   const T = temperatureC + 273.15;
@@ -201,7 +202,7 @@ export function fluidAt(spec: FluidSpec, temperatureC: number): Fluid {
   if (spec.kind === "water") {
     const w = waterProperties(temperatureC);
     return {
-      name: `Water ${temperatureC} °C`,
+      name: `Water ${qt("temperature", temperatureC)}`,
       density: w.density,
       dynamicViscosity: w.dynamicViscosity,
       kinematicViscosity: w.kinematicViscosity,

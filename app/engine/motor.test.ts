@@ -1,6 +1,7 @@
 /** Motor rating, IE efficiency and energy from electrical input. */
 import { describe, expect, it } from "vitest";
 import { annualEnergy, EngineInputError, IEC_MOTOR_RATINGS_KW, motorEfficiency, nextStandardRating, polesForSpeed, suggestMotor } from "./index.ts";
+import { inSI } from "./quantityText.ts";
 
 describe("standard ratings (IEC 60034-1 / IEC 60072-1 series, from memory)", () => {
   it("the series is ascending and holds the familiar steps", () => {
@@ -22,7 +23,7 @@ describe("suggestMotor: non-overloading over the curve, with the service factor 
   it("curve maximum 8.0 kW beyond the duty: SF 1.0 → 11 kW; SF 1.15 → 7.5 kW (7.5 × 1.15 = 8.625 kW)", () => {
     const a = suggestMotor({ dutyPower: 6900, maxCurvePower: 8000 });
     expect(a.rating).toBe(11000);
-    expect(a.basis).toContain("largest power on the curve to its end 8.00 kW");
+    expect(inSI(a.basis)).toContain("largest power on the curve to its end 8.00 kW");
     expect(suggestMotor({ dutyPower: 6900, maxCurvePower: 8000, serviceFactor: 1.15 }).rating).toBe(7500);
   });
   it("at the edge: maximum 8.625 kW with SF 1.15 → 7.5 kW, 8.63 kW → 11 kW", () => {

@@ -17,6 +17,7 @@
  *   cost = kWh × tariff in the workspace's currency.
  */
 import { EngineInputError, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
+import { qt } from "./quantityText.ts";
 
 /** Standard rated outputs, kW (IEC 60034-1 / IEC 60072-1 series, from memory). */
 export const IEC_MOTOR_RATINGS_KW: readonly number[] = [
@@ -87,11 +88,11 @@ export function suggestMotor(input: { dutyPower: number; maxCurvePower: number |
   const covers = Math.max(duty, max ?? 0);
   const rating = nextStandardRating(covers / sf);
   const what = max !== null && max > duty
-    ? `largest power on the curve to its end ${(max / 1000).toFixed(2)} kW (duty ${(duty / 1000).toFixed(2)} kW)`
-    : `duty power ${(duty / 1000).toFixed(2)} kW${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
+    ? `largest power on the curve to its end ${qt("power", max)} (duty ${qt("power", duty)})`
+    : `duty power ${qt("power", duty)}${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
   const basis = rating === null
-    ? `${what} is above the largest standard rating (1000 kW)`
-    : `${(rating / 1000).toString()} kW is the smallest standard rating whose rating × service factor ${sf} = ${((rating * sf) / 1000).toFixed(2)} kW covers the ${what}`;
+    ? `${what} is above the largest standard rating (${qt("power", 1e6)})`
+    : `${qt("power", rating)} is the smallest standard rating whose rating × service factor ${sf} = ${qt("power", rating * sf)} covers the ${what}`;
   return { rating, covers, serviceFactor: sf, basis, source: MOTOR_RATINGS_SOURCE };
 }
 
@@ -107,8 +108,8 @@ export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CL
   if (poles !== 2 && poles !== 4) throw new EngineInputError("poles", "must be 2 or 4");
   const row = IE_EFFICIENCY_TABLE[poles][ieClass];
   const warnings: EngineWarning[] = [];
-  if (kw > 1000) throw new EngineInputError("rating", "is above 1000 kW, the end of the IEC 60034-30-1 table");
-  if (kw < IE_KW[0]) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${kw} kW is below the table (0.75 kW): the 0.75 kW efficiency is used` });
+  if (kw > 1000) throw new EngineInputError("rating", `is above ${qt("power", 1e6)}, the end of the IEC 60034-30-1 table`);
+  if (kw < IE_KW[0]) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} is below the table (${qt("power", 750)}): the ${qt("power", 750)} efficiency is used` });
   // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
   let i = 0;
   while (i + 1 < IE_KW.length && IE_KW[i + 1] <= kw * (1 + 1e-9)) i++;

@@ -18,6 +18,7 @@ import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, 
 import { brent } from "./roots.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
+import { qt } from "./quantityText.ts";
 
 export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end";
 
@@ -110,12 +111,12 @@ function solveInner(
       return { status: "no-intersection-shutoff-below-static", flow: null, head: null, points, method: null, iterations,
         atFirstPoint: first, atLastPoint: last, warnings,
         message: c.shutoffHead !== null
-          ? `Shutoff head ${first.pumpHead.toFixed(2)} m is below the system head ${first.systemHead.toFixed(2)} m at zero flow: the pump cannot deliver into this system`
-          : `Pump head at its first point (${first.pumpHead.toFixed(2)} m) is below the system head there (${first.systemHead.toFixed(2)} m) and the curves never meet` };
+          ? `Shutoff head ${qt("head", first.pumpHead)} is below the system head ${qt("head", first.systemHead)} at zero flow: the pump cannot deliver into this system`
+          : `Pump head at its first point (${qt("head", first.pumpHead)}) is below the system head there (${qt("head", first.systemHead)}) and the curves never meet` };
     }
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `At the last curve point the pump still gives ${last.pumpHead.toFixed(2)} m against ${last.systemHead.toFixed(2)} m: it would run out past the end of its published curve` };
+      message: `At the last curve point the pump still gives ${qt("head", last.pumpHead)} against ${qt("head", last.systemHead)}: it would run out past the end of its published curve` };
   }
   const chosen = roots[roots.length - 1];
   const op = points[points.length - 1];

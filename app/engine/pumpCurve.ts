@@ -16,6 +16,7 @@ import { EngineInputError, requireFinite, requirePositive, type EngineWarning } 
 import { evalCubic, monotoneCubic, type MonotoneCubic } from "./interp.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
+import { qt } from "./quantityText.ts";
 
 /** One point of a published curve (SI). */
 export interface PumpPoint {
@@ -138,7 +139,7 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
     const h = pts[i].head;
     if (h - runningMin > riseTol * h0) {
       throw new EngineInputError(`points[${i}].head`,
-        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${h} m after ${runningMin} m)`);
+        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${qt("head", h)} after ${qt("head", runningMin)})`);
     }
     runningMin = Math.min(runningMin, h);
     headMax = Math.max(headMax, h);

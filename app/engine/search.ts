@@ -20,6 +20,7 @@ import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurv
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
+import { qt } from "./quantityText.ts";
 
 /** A curve set to search: one pump model at one speed and impeller diameter. */
 export interface CurveSet {
@@ -400,13 +401,13 @@ export function searchDuty(
 /** What a row is, in words (how it meets the duty and its figures). */
 function describe(c: Candidate, reqMargin: number): string {
   const parts: string[] = [];
-  parts.push(c.method === "direct" ? `reaches the duty point as published (${c.headAtDuty.toFixed(1)} m at duty flow)`
-    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${(c.diameter * 1000).toFixed(0)} mm)` : ""}`
+  parts.push(c.method === "direct" ? `reaches the duty point as published (${qt("head", c.headAtDuty)} at duty flow)`
+    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
     : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
   parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
   if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
   if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
-  if (c.shaftPower !== null) parts.push(`${(c.shaftPower / 1000).toFixed(2)} kW shaft`);
+  if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
   return parts.join("; ");
 }
 
@@ -423,7 +424,7 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
   }
   if (a.shaftPower !== null && b.shaftPower !== null) {
     const d = b.shaftPower - a.shaftPower;
-    if (Math.abs(d) >= 5) diffs.push(`${(Math.abs(d) / 1000).toFixed(2)} kW ${d > 0 ? "more" : "less"} shaft power`);
+    if (Math.abs(d) >= 5) diffs.push(`${qt("power", Math.abs(d))} ${d > 0 ? "more" : "less"} shaft power`);
   }
   if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
     diffs.push(`NPSH margin ${b.npshMargin.toFixed(2)} against ${a.npshMargin.toFixed(2)}`);

@@ -5,6 +5,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { catalogueReasons, EngineInputError, judgeCandidate, type BandEdge } from "./index.ts";
+import { inSI, renderQuantities } from "./quantityText.ts";
+import { UNIT_SYSTEMS } from "./units.ts";
 
 const M3H = 1 / 3600;
 const QD = 100 * M3H; // duty flow (made-up)
@@ -32,8 +34,10 @@ describe("flow against the duty (tolerance −0 %/+10 %, common practice)", () =
   it("the verdict states its rule and the numbers", () => {
     const v = judge(0.91 * QD);
     expect(v.rule).toMatch(/short: operating flow at the demanding edge below duty flow/);
-    expect(v.reasons[0]).toContain("91.0 m³/h");
-    expect(v.reasons[0]).toContain("100.0 m³/h");
+    // Quantities are tokens, rendered in the reader's units: 91 m³/h = 400.7 US gpm (1 gal = 3.785411784 L, NIST SP 811).
+    expect(inSI(v.reasons[0])).toContain("91.0 m³/h");
+    expect(inSI(v.reasons[0])).toContain("100 m³/h");
+    expect(renderQuantities(v.reasons[0], UNIT_SYSTEMS.US)).toContain("401 gpm");
     expect(v.reasons[0]).toContain("91.0 %");
   });
   it("oversized says what throttling, trim or speed would save", () => {
@@ -42,7 +46,7 @@ describe("flow against the duty (tolerance −0 %/+10 %, common practice)", () =
       { means: "throttling", power: 7400, how: "valve closed to the duty" },
     ] });
     expect(v.status).toBe("oversized");
-    expect(v.reasons.join(" ")).toContain("Speed to the duty (speed 88.0 %): 5.20 kW shaft instead of 8.00 kW now, saving 2.80 kW (35 %)");
+    expect(inSI(v.reasons.join(" "))).toContain("Speed to the duty (speed 88.0 %): 5.20 kW shaft instead of 8.00 kW now, saving 2.80 kW (35 %)");
     expect(v.reasons.join(" ")).toContain("Throttling to the duty");
   });
   it("bad input is refused", () => {
@@ -58,7 +62,7 @@ describe("worst edge of the band decides", () => {
     const v = judgeCandidate({ dutyFlow: QD, edges: [edge(1.05 * QD, "least lift, new pipe"), edge(0.97 * QD, "most lift, aged pipe")] })!;
     expect(v.status).toBe("short");
     expect(v.edge).toBe("most lift, aged pipe");
-    expect(v.reasons[0]).toContain("105.0 m³/h at least lift, new pipe");
+    expect(inSI(v.reasons[0])).toContain("105 m³/h at least lift, new pipe");
   });
   it("wide band: the least-flow edge within tolerance meets even when the other edge runs far above", () => {
     const v = judgeCandidate({ dutyFlow: QD, edges: [edge(1.3 * QD, "least lift, new pipe"), edge(1.02 * QD, "most lift, aged pipe")] })!;
@@ -85,7 +89,7 @@ describe("catalogue limits (the model's published impellers; speed 30–100 % of
   it("1 mm above the largest is outside; the largest itself is inside", () => {
     expect(judge(QD, { catalogue: { ...cat, diameter: 0.196 } }).status).toBe("outside-catalogue");
     expect(judge(QD, { catalogue: { ...cat, diameter: 0.195 } }).status).toBe("meets");
-    expect(catalogueReasons({ ...cat, diameter: 0.196 })[0]).toBe("impeller Ø196 mm is above the largest the model publishes (Ø195 mm)");
+    expect(inSI(catalogueReasons({ ...cat, diameter: 0.196 })[0])).toBe("impeller Ø196 mm is above the largest the model publishes (Ø195 mm)");
   });
   it("speed 29 % of rated is outside, 30 % is inside; 100 % inside, 101 % outside", () => {
     const at = (f: number) => judge(QD, { catalogue: { speed: 2900 * f, ratedSpeed: 2900 } }).status;
@@ -102,6 +106,6 @@ describe("catalogue limits (the model's published impellers; speed 30–100 % of
   it("outside-catalogue wins over every flow verdict and names the published limit", () => {
     const v = judge(0.5 * QD, { catalogue: { ...cat, diameter: 0.165 } });
     expect(v.status).toBe("outside-catalogue");
-    expect(v.reasons[0]).toContain("Ø165 mm is below the smallest the model publishes (Ø175 mm)");
+    expect(inSI(v.reasons[0])).toContain("Ø165 mm is below the smallest the model publishes (Ø175 mm)");
   });
 });

@@ -20,6 +20,7 @@
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
+import { qt } from "./quantityText.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
 
@@ -99,9 +100,10 @@ export interface Verdict {
   edge: string | null;
 }
 
-const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
-const mm = (d: number) => `Ø${(d * 1000).toFixed(0)} mm`;
-const kw = (p: number) => `${(p / 1000).toFixed(2)} kW`;
+// Quantities as tokens (quantityText.ts): the reader's units are chosen where the text is shown.
+const m3h = (q: number) => qt("flow", q);
+const mm = (d: number) => `Ø${qt("diameter", d)}`;
+const kw = (p: number) => qt("power", p);
 const pc = (x: number, digits = 1) => `${(x * 100).toFixed(digits)} %`;
 
 function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {

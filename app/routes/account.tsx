@@ -10,6 +10,10 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PostButton } from "~/components/PostButton";
+import { UnitsFieldset } from "~/components/UnitsFieldset";
+import { PRESET_IDS, SETTABLE } from "~/lib/shared/units";
+import { UNITS, type Quantity } from "~/engine";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
 
@@ -17,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request);
   const [devices, tokens] = await Promise.all([listSessions(m.user.id), listApiTokens(m.user.id, m.workspace.id)]);
   return {
-    user: { email: m.user.email, name: m.user.name, emailVerified: m.user.emailVerified, unitSystem: m.user.unitSystem },
+    user: { email: m.user.email, name: m.user.name, emailVerified: m.user.emailVerified, unitSystem: m.user.unitSystem, overrides: m.user.unitPicks },
     workspace: m.workspace,
     devices: devices.map((d) => ({
       id: deviceId(d.id), // opaque: the session id is the cookie's value and never leaves the server
@@ -30,8 +34,13 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
+/** One select per quantity: "" follows the preset, else one of the engine's unit ids for it. */
+const UnitPicks = Object.fromEntries(
+  SETTABLE.map((q) => [`unit.${q}`, v.optional(v.picklist(["", ...UNITS[q].map((d) => d.id)], `That is not a unit of ${q}: pick one from the list.`), "")]),
+) as unknown as Record<`unit.${Quantity}`, v.OptionalSchema<v.PicklistSchema<string[], string>, "">>;
+
 const Intent = v.variant("intent", [
-  v.object({ intent: v.literal("profile"), name: Name("your name"), unitSystem: v.picklist(["SI", "US"], "Pick SI or US units.") }),
+  v.object({ intent: v.literal("profile"), name: Name("your name"), unitSystem: v.picklist(PRESET_IDS, "Pick SI or US units."), ...UnitPicks }),
   v.object({ intent: v.literal("resend") }),
   v.object({ intent: v.literal("revoke-device"), sessionId: v.pipe(v.string(), v.maxLength(255)) }),
   v.object({ intent: v.literal("create-token"), name: Name("a token name", 80), scope: v.picklist(["read", "write"], "Pick a scope.") }),
@@ -45,7 +54,11 @@ export async function action({ request }: Route.ActionArgs) {
   const f = r.value;
   switch (f.intent) {
     case "profile":
-      await updateProfile(m.user.id, { name: f.name, unitSystem: f.unitSystem });
+      await updateProfile(m.user.id, {
+        name: f.name,
+        unitSystem: f.unitSystem,
+        units: Object.fromEntries(SETTABLE.flatMap((q) => (f[`unit.${q}`] ? [[q, f[`unit.${q}`]]] : []))),
+      });
       return { notice: "Profile saved." };
     case "resend":
       await sendVerification(m.user.id);
@@ -64,7 +77,7 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const fmt = (iso: string | null) => (iso ? new Date(iso).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never");
+const fmt = (iso: string | null) => (iso ? `${fmtDateTime(iso)} UTC` : "never");
 
 export default function Account() {
   const d = useLoaderData<typeof loader>();
@@ -105,15 +118,7 @@ export default function Account() {
         <Form method="post" className="grid max-w-lg gap-3">
           <input type="hidden" name="intent" value="profile" />
           <Field label="Name" name="name" defaultValue={d.user.name} error={errors.name} required />
-          <div>
-            <label className="label" htmlFor="f-units">
-              Units
-            </label>
-            <select id="f-units" name="unitSystem" defaultValue={d.user.unitSystem} className="field">
-              <option value="SI">SI — m³/h, m, kPa, kW</option>
-              <option value="US">US — gpm, ft, psi, hp</option>
-            </select>
-          </div>
+          <UnitsFieldset preset={d.user.unitSystem} overrides={d.user.overrides} errors={errors} />
           <div>
             <button className="btn">Save profile</button>
           </div>

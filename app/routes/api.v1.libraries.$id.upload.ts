@@ -8,6 +8,7 @@ import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { discardUpload, getUploadMeta } from "~/lib/libraries/uploads.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
+import { renderDeep } from "~/lib/shared/units";
 
 class MappingRefused extends Error {}
 
@@ -50,7 +51,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (e instanceof AnalysisFailed && e.mappingRefused) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).join(".")}`, message: i.message })) });
       throw e;
     }
-    const report = { uploadId, ...analysis.report! };
+    const report = renderDeep({ uploadId, ...analysis.report! }, c.units); // curve names in SI for a token (the caller's units on our pages)
     if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
     try {
       if (analysis.mappingRefused) throw new MappingRefused(analysis.mappingRefused);

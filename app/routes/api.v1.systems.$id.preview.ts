@@ -6,6 +6,7 @@ import { SystemInputSchema } from "~/lib/projects/hydraulics";
 import { badRequest, notFound } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/projects/workbench-view";
+import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
 // unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout.
@@ -22,12 +23,12 @@ export async function action({ request, params }: Route.ActionArgs) {
   const parsed = v.safeParse(v.object({ input: SystemInputSchema }), body);
   if (!parsed.success) {
     return badRequest("The system inputs are not valid.", {
-      errors: parsed.issues.map((i) => ({ field: (i.path ?? []).map((p) => String(p.key)).join("."), message: i.message })),
+      errors: parsed.issues.map((i) => ({ field: (i.path ?? []).map((p) => String(p.key)).join("."), message: renderUnits(i.message, c.units) })),
     });
   }
   try {
     const bench = await systemWorkbench({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output, parsed.output.input);
-    return Response.json(workbenchView(bench));
+    return Response.json(renderDeep(workbenchView(bench), c.units)); // text in the caller's units (SI for tokens)
   } catch (e) {
     if ((e as { init?: { status?: number } })?.init?.status === 404) return notFound();
     throw e;

@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.search";
 import { requireApi } from "~/lib/auth/guards.server";
+import { renderDeep } from "~/lib/shared/units";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { IdField, readQuery } from "~/lib/shared/forms.server";
@@ -20,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   try {
     const view = await systemSearchView({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output,
       { methods: methods.length ? (methods as (typeof METHODS)[number][]) : undefined });
-    return Response.json(view);
+    return Response.json(renderDeep(view, c.units));
   } catch (e) {
     return asProblem(e);
   }

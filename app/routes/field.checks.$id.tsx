@@ -8,9 +8,11 @@ import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
 import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
+import { renderDeep, renderUnits } from "~/lib/shared/units";
+import { fmtDateTime } from "~/lib/shared/format";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -23,9 +25,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   return {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
-    selection: { id: c.selection.id, title: c.selection.title, projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
+    selection: { id: c.selection.id, title: renderUnits(c.selection.title, m.user.units), projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
     readings: c.readings,
-    result: c.result,
+    result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
     recordedBy: c.recordedBy,
     recordedIn: c.recordedIn,
     mayAmend: c.mayAmend && can(m.role, "fieldcheck.write"),
@@ -33,16 +35,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     versions: c.versions,
     latest: c.latest,
     justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
-    unitSystem: m.user.unitSystem as UnitSystem,
+    unitSystem: m.user.units,
   };
 }
 
 const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
 
-function gaugeText(sys: UnitSystem, g: Readings["suction"], asGauge: number) {
+function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
   const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
-  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against 101.325 kPa)` : "";
+  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against ${fmtPressure(sys, 101325)})` : "";
   return `${read}${used}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
 }
 
@@ -64,7 +66,7 @@ export default function FieldCheckRecord() {
           Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
         </h1>
         <p className="text-sm text-slate-700">
-          {d.selection.projectName} · {d.selection.systemName} · recorded {d.check.createdAt.slice(0, 16).replace("T", " ")} UTC by {d.recordedBy} ({d.recordedIn})
+          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtDateTime(d.check.createdAt)} UTC by {d.recordedBy} ({d.recordedIn})
         </p>
       </header>
       {d.justRecorded ? (
@@ -219,7 +221,7 @@ export default function FieldCheckRecord() {
           </dd>
           <dt className="text-slate-600">Fluid</dt>
           <dd>
-            {r.fluid.name} · ρ {fmtNum(r.fluid.density, 1)} kg/m³
+            {r.fluid.name} · ρ {fmtQ(sys, "density", r.fluid.density)}
           </dd>
           <dt className="text-slate-600">Grade</dt>
           <dd>

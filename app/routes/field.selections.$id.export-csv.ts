@@ -4,12 +4,13 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { checkHistory } from "~/lib/fieldchecks/records.server";
 import { historyCsv } from "~/lib/fieldchecks";
+import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 
 // GET /field/selections/:id/export.csv — every check of the selection (all versions), SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const h = await checkHistory(viewerOf(m), readId(params.id));
-  return new Response(historyCsv(h), {
+  return new Response(historyCsv(renderDeep(h, SI_UNITS)), {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-field-checks-${h.selection.id}.csv"` },
   });
 }

@@ -7,13 +7,13 @@ import { can } from "~/lib/auth/permissions";
 import { checkPage } from "~/lib/fieldchecks/page.server";
 import { submitCheckForm } from "~/lib/fieldchecks/submit.server";
 import type { CheckFields } from "~/lib/fieldchecks";
-import type { UnitSystem } from "~/components/units";
 import { FieldCaution } from "~/components/fieldcheck";
 import { CheckForm } from "~/components/field/CheckForm";
 import { CheckHistoryList, SelectionSummary } from "~/components/field/SelectionSummary";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
 
 // GET /field/selections/:id — the check form (phone first, works offline once opened) and the
 // selection's check history.
@@ -28,9 +28,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const member = await requireMember(request, "fieldcheck.read");
   const selectionId = readId(params.id);
   const url = new URL(request.url);
-  const page = await checkPage(viewerOf(member), selectionId, member.user.unitSystem as UnitSystem, readQuery(url, "amend", 20));
+  const page = await checkPage(viewerOf(member), selectionId, member.user.units, readQuery(url, "amend", 20));
   const owner = `${member.user.id}/${member.workspace.id}`;
-  return { ...page, owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.unitSystem as UnitSystem };
+  return { ...renderDeep(page, member.user.units), owner, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -40,7 +40,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const outcome = await submitCheckForm(viewerOf(member), selectionId, form);
   if (outcome.ok) throw redirect(`/field/checks/${outcome.id}?recorded=1`);
   const errors = "conflict" in outcome ? { _form: outcome.conflict } : outcome.errors;
-  return data({ errors, fields: outcome.fields }, { status: outcome.status });
+  return data({ errors: renderDeep(errors, member.user.units), fields: outcome.fields }, { status: outcome.status });
 }
 
 export default function FieldSelection() {
@@ -57,7 +57,7 @@ export default function FieldSelection() {
       <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={page.unitSystem} />
       {page.mayWrite ? (
-        <CheckForm selection={selection} owner={page.owner} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
+        <CheckForm selection={selection} owner={page.owner} units={page.unitSystem} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
       ) : (
         <p className="panel text-sm">Your role can read field checks but not record them.</p>
       )}

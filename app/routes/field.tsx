@@ -6,8 +6,9 @@ import { fieldHome } from "~/lib/fieldchecks/records.server";
 import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
-import type { UnitSystem } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { renderDeep } from "~/lib/shared/units";
+import { fmtDate } from "~/lib/shared/format";
 
 // GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
 
@@ -17,7 +18,7 @@ export const links: Route.LinksFunction = () => [{ rel: "manifest", href: "/fiel
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const h = await fieldHome(viewerOf(m));
-  return { ...h, workspace: m.workspace.name, role: m.role, unitSystem: m.user.unitSystem as UnitSystem, owner: `${m.user.id}/${m.workspace.id}` };
+  return { ...renderDeep(h, m.user.units), workspace: m.workspace.name, role: m.role, unitSystem: m.user.units, owner: `${m.user.id}/${m.workspace.id}` };
 }
 
 export default function FieldHome() {
@@ -76,7 +77,7 @@ export default function FieldHome() {
                   {c.selection} · check {c.id} v{c.version}
                 </a>
                 <span className="text-slate-600">
-                  {c.createdAt.slice(0, 10)} · {c.byName || "—"} ({c.byWorkspace})
+                  {fmtDate(c.createdAt)} · {c.byName || "—"} ({c.byWorkspace})
                 </span>
                 <VerdictBadge verdict={c.verdict} grade={c.grade} />
               </li>

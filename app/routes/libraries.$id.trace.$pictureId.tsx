@@ -21,7 +21,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     lib: { id: lib.id, name: lib.name },
     picture: { id: picture.id, filename: picture.filename, type: picture.contentType, sha256: picture.sha256 },
-    imperial: m.user.unitSystem === "US",
+    units: { flow: m.user.units.flow, head: m.user.units.head },
   };
 }
 
@@ -65,7 +65,7 @@ export default function TracePicture({ loaderData: d, actionData }: Route.Compon
         src={`/libraries/${d.lib.id}/trace/${d.picture.id}/file`}
         type={d.picture.type}
         filename={d.picture.filename}
-        imperial={d.imperial}
+        units={d.units}
       />
     </div>
   );

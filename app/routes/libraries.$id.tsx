@@ -4,8 +4,8 @@ import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { toSI, UNIT_SYSTEMS } from "~/engine";
-import { fmtFlow, fmtHead, fmtPct, fmtPower } from "~/components/units";
+import { toSI } from "~/engine";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf, renderUnits } from "~/components/units";
 import { can } from "~/lib/auth/permissions";
 import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
@@ -19,6 +19,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { Crumbs } from "~/components/Crumbs";
 import { useFormResult } from "~/components/useFormResult";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -46,11 +47,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const writer = owner && can(m.role, "library.write");
   const url = new URL(request.url);
   const query = readQuery(url, LibraryQuery);
-  const sys = m.user.unitSystem as "SI" | "US";
+  const sys = m.user.units;
   const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
   const numIn = (k: "flow" | "head", q: "flow" | "head") => {
     const x = Number(qp(k).replace(",", "."));
-    return Number.isFinite(x) && x > 0 ? toSI(q, UNIT_SYSTEMS[sys][q], x) : undefined;
+    return Number.isFinite(x) && x > 0 ? toSI(q, sys[q], x) : undefined;
   };
   const sort = qp("sort");
   const filters = {
@@ -182,11 +183,11 @@ export default function LibraryPage() {
                 <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-20" />
               </label>
               <label>
-                <span className="label">Reaches flow ({d.unitSystem === "US" ? "gpm" : "m³/h"})</span>
+                <span className="label">Reaches flow ({labelOf(d.unitSystem, "flow")})</span>
                 <input name="flow" inputMode="decimal" defaultValue={d.filters.flow} className="field w-24" />
               </label>
               <label>
-                <span className="label">and head ({d.unitSystem === "US" ? "ft" : "m"})</span>
+                <span className="label">and head ({labelOf(d.unitSystem, "head")})</span>
                 <input name="head" inputMode="decimal" defaultValue={d.filters.head} className="field w-20" />
               </label>
               <label>
@@ -224,13 +225,13 @@ export default function LibraryPage() {
                   <CurvePreview
                     unitSystem={d.unitSystem}
                     title={`Curves of ${d.modelName}`}
-                    curves={d.curves.map((c) => ({ id: String(c.id), label: curveLabel(c.speed, c.impellerDiameter), points: c.points }))}
+                    curves={d.curves.map((c) => ({ id: String(c.id), label: renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem), points: c.points }))}
                   />
                   <details>
                     <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
                     {d.curves.map((c) => (
-                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${curveLabel(c.speed, c.impellerDiameter)}`}>
-                        <caption className="text-left font-semibold">{curveLabel(c.speed, c.impellerDiameter)}</caption>
+                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}`}>
+                        <caption className="text-left font-semibold">{renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}</caption>
                         <thead className="text-left text-slate-600">
                           <tr>
                             <th>Flow</th>
@@ -268,7 +269,7 @@ export default function LibraryPage() {
                       {r.number}
                       {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
                     </td>
-                    <td>{r.at.slice(0, 16).replace("T", " ")} UTC</td>
+                    <td>{fmtDateTime(r.at)} UTC</td>
                     <td>{r.curves}</td>
                     <td>{r.points}</td>
                     <td>{r.skipped}</td>
@@ -300,7 +301,7 @@ export default function LibraryPage() {
                 {d.pending.map((p) => (
                   <li key={p.id}>
                     <a href={`/libraries/${d.lib.id}/uploads/${p.id}`}>{p.filename}</a> · {fmtBytes(p.sizeBytes)} · uploaded{" "}
-                    {p.createdAt.slice(0, 16).replace("T", " ")} UTC
+                    {fmtDateTime(p.createdAt)} UTC
                   </li>
                 ))}
               </ul>

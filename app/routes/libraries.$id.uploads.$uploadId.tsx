@@ -9,7 +9,7 @@ import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
 import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, NUMERIC_FIELDS, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
-import { editsFromForm, encodingFromForm, mappingFromForm } from "~/lib/libraries/mapping-form";
+import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
@@ -20,15 +20,18 @@ import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { Crumbs } from "~/components/Crumbs";
+import { renderDeep, type UnitChoice } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
 /** The analysis runs in a worker thread and is kept per upload (app/lib/libraries/upload-analysis.server.ts). */
-const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null } }, mapping?: unknown) =>
-  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping).catch((e) => {
-    if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
-    throw e;
-  });
+const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null }; m: { user: { units: UnitChoice } } }, mapping?: unknown) =>
+  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping)
+    .then((s) => renderDeep(s, c.m.user.units)) // curve names carry the impeller as a quantity token
+    .catch((e) => {
+      if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
+      throw e;
+    });
 
 async function context(request: Request, params: { id: string; uploadId: string }) {
   const m = await requireMember(request, "library.write");
@@ -44,7 +47,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     lib: { id: c.lib.id, name: c.lib.name },
     upload: { id: c.upload.id, filename: c.upload.filename, size: c.upload.sizeBytes, sha256: c.upload.sha256, source: c.upload.source },
-    unitSystem: c.m.user.unitSystem,
+    unitSystem: c.m.user.units,
     correctedFrom: readQuery(request.url, v.object({ from: QueryId })).from,
     ...(await analysis(c)),
   };
@@ -177,11 +180,12 @@ export default function UploadPreview() {
               <input name="defaultSpeed" inputMode="decimal" defaultValue={d.mapping.defaults.speed ?? ""} className="field w-24" />
             </label>
             <label className="flex items-center gap-2">
-              Impeller Ø when the file has none (mm)
+              Impeller Ø when the file has none ({impellerUnitOf(l.unitSystem.diameter)})
+              <input type="hidden" name="defaultImpellerUnit" value={impellerUnitOf(l.unitSystem.diameter)} />
               <input
                 name="defaultImpeller"
                 inputMode="decimal"
-                defaultValue={d.mapping.defaults.impeller !== undefined && d.mapping.defaults.impellerUnit === "mm" ? d.mapping.defaults.impeller : ""}
+                defaultValue={d.mapping.defaults.impeller !== undefined && d.mapping.defaults.impellerUnit === impellerUnitOf(l.unitSystem.diameter) ? d.mapping.defaults.impeller : ""}
                 className="field w-24"
               />
             </label>

@@ -7,6 +7,7 @@ import { IdField, invalid, readForm, readId } from "~/lib/shared/forms.server";
 import { listShares, shareProject, unshareProject } from "~/lib/projects";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
+import { fmtDate } from "~/lib/shared/format";
 
 // GET/POST /projects/:id/share — the engineer shares a project with another workspace (e.g. the
 // commissioning contractor) by its exact name or short name; lists and removes shares.
@@ -85,7 +86,7 @@ export default function ShareProject() {
             {d.shares.map((s) => (
               <li key={s.id} className="flex items-center justify-between gap-2 py-2">
                 <span>
-                  {s.workspaceName} <span className="text-slate-500">({s.workspaceSlug})</span> · since {s.createdAt.slice(0, 10)}
+                  {s.workspaceName} <span className="text-slate-500">({s.workspaceSlug})</span> · since {fmtDate(s.createdAt)}
                 </span>
                 <Form method="post">
                   <input type="hidden" name="intent" value="unshare" />

@@ -13,6 +13,8 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
+import { renderDeep } from "~/lib/shared/units";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -24,10 +26,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     project: { id: p.id, name: p.name, site: p.site, description: p.description, archived: p.archivedAt != null },
     systems: await listSystems(viewer, id),
-    selections: await listSelections(viewer, { projectId: id }),
+    selections: renderDeep(await listSelections(viewer, { projectId: id }), m.user.units), // titles name the impeller in the reader's units
     role: m.role,
     canWrite: can(m.role, "project.write"),
-    unitSystem: m.user.unitSystem,
+    unitSystem: m.user.units,
   };
 }
 
@@ -133,7 +135,7 @@ export default function ProjectPage() {
                 <a href={`/selections/${s.id}`} className="font-semibold">
                   {s.title}
                 </a>{" "}
-                for {s.systemName} · {s.createdAt.slice(0, 10)}
+                for {s.systemName} · {fmtDate(s.createdAt)}
               </li>
             ))}
           </ul>

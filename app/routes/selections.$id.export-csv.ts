@@ -3,11 +3,12 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { getSelection, selectionCsv } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
+import { renderDeep, renderUnits, SI_UNITS } from "~/lib/shared/units";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const s = await getSelection(viewerOf(m), readId(params.id));
-  return new Response(selectionCsv(s.id, s.title, s.frozen), {
+  return new Response(selectionCsv(s.id, renderUnits(s.title, SI_UNITS), renderDeep(s.frozen, SI_UNITS)), {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.csv"` },
   });
 }

@@ -5,7 +5,7 @@ import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
-import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
@@ -15,6 +15,8 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
+import { renderDeep, renderUnits } from "~/lib/shared/units";
+import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -23,8 +25,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = readId(params.id);
   const viewer = viewerOf(m);
   const s = await getSelection(viewer, id);
-  const fieldChecks = await checksOfSelection(viewer, s.id);
-  return { id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozen: s.frozen, unitSystem: m.user.unitSystem as UnitSystem, workspace: m.workspace.name, fieldChecks };
+  const fieldChecks = renderDeep(await checksOfSelection(viewer, s.id), m.user.units);
+  // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
+  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
@@ -49,7 +52,7 @@ export default function SelectionReport() {
           <p className="text-xs uppercase tracking-wide text-slate-500">Pump selection report · {d.workspace}</p>
           <h1 className="text-2xl font-bold text-brand-900">{d.title}</h1>
           <p className="text-sm text-slate-700">
-            {f.project.name} · {f.system.name} · selected {d.createdAt.slice(0, 10)} · report no. DM-{String(d.id).padStart(5, "0")}
+            {f.project.name} · {f.system.name} · selected {fmtDate(d.createdAt)} · report no. DM-{String(d.id).padStart(5, "0")}
           </p>
         </div>
         <div className="no-print flex flex-wrap gap-2">
@@ -103,7 +106,7 @@ export default function SelectionReport() {
             <dd>
               {f.pump.library.name} revision {f.pump.library.revision}
               {f.pump.speed ? ` · ${Math.round(f.pump.speed)} rpm` : ""}
-              {f.pump.impellerDiameter ? ` · Ø${(f.pump.impellerDiameter * 1000).toFixed(0)} mm` : ""}
+              {f.pump.impellerDiameter ? ` · Ø${fmtQ(sys, "diameter", f.pump.impellerDiameter)}` : ""}
             </dd>
           </dl>
         </div>
@@ -113,7 +116,7 @@ export default function SelectionReport() {
             <dt className="text-slate-600">Fluid</dt>
             <dd>
               {input.fluid.kind === "water" ? "Water" : input.fluid.name || "Custom liquid"} at {fmtQ(sys, "temperature", input.temperatureC, 1)}
-              {f.systemCurve ? ` · ρ ${fmtNum(f.systemCurve.fluid.density, 1)} kg/m³ · ν ${f.systemCurve.fluid.kinematicViscosity.toExponential(3)} m²/s` : ""}
+              {f.systemCurve ? ` · ρ ${fmtQ(sys, "density", f.systemCurve.fluid.density)} · ν ${fmtQ(sys, "kinematicViscosity", f.systemCurve.fluid.kinematicViscosity)}` : ""}
             </dd>
             <dt className="text-slate-600">Kind</dt>
             <dd>{input.mode === "closed-loop" ? `closed loop, control head ${fmtHead(sys, input.controlHead)}` : "open, static lift"}</dd>
@@ -198,14 +201,14 @@ export default function SelectionReport() {
         <ul className="mt-2 list-disc space-y-1 pl-5">
           <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
           <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
-          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at 101.325 kPa.</li>
+          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at {fmtPressure(sys, 101325)}.</li>
           <li>System band: least and most static lift × new and aged pipe roughness.</li>
           <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
           <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>
           <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
           <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
           <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
-          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {f.frozenAt.slice(0, 16).replace("T", " ")} UTC; later library changes do not alter this report.</li>
+          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {fmtDateTime(f.frozenAt)} UTC; later library changes do not alter this report.</li>
         </ul>
       </section>
 

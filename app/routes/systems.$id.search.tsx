@@ -8,12 +8,13 @@ import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryText } from "~
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { toSI } from "~/engine";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitSystem } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/components/units";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -31,7 +32,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
   const url = new URL(request.url);
-  const sys = m.user.unitSystem as UnitSystem;
+  const sys = m.user.units;
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
   const maxPower = Number(q("maxPower").replace(",", "."));
@@ -41,14 +42,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys === "US" ? "hp" : "kW", maxPower) : undefined,
+    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys.power, maxPower) : undefined,
     methods: methods.length ? methods : undefined,
     allowBeyondCatalogue: query.beyond,
   };
   const viewer = viewerOf(m);
   const res = await searchForSystem(viewer, id, filters);
   const current = await listCandidates(viewer, id);
-  return {
+  return renderDeep({ // quantities in messages, reasons and "why this rank" in the user's units
     id,
     name: res.system.name,
     project: { id: res.system.projectId, name: res.system.projectName },
@@ -83,7 +84,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     limits: { candidates: MAX_CANDIDATES, picks: MAX_PICKS },
     canWrite: can(m.role, "project.write"),
     filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
-  };
+  }, sys);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -134,7 +135,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
           <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-24" />
         </label>
         <label>
-          <span className="label">Max shaft power ({sys === "US" ? "hp" : "kW"})</span>
+          <span className="label">Max shaft power ({labelOf(sys, "power")})</span>
           <input name="maxPower" inputMode="decimal" defaultValue={d.filters.maxPower} className="field w-24" />
         </label>
         <fieldset>

@@ -11,7 +11,7 @@ import { workbenchView, type WorkbenchView } from "~/lib/projects/workbench-view
 import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { readAdjustForm } from "~/lib/projects/adjust-form";
-import { readSystemForm, systemFormValues, type FormErrors, type UnitSystem } from "~/lib/projects/system-form";
+import { readSystemForm, systemFormValues, type FormErrors } from "~/lib/projects/system-form";
 import { FormError, Notice } from "~/components/forms";
 import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
@@ -26,6 +26,7 @@ import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/compo
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { PostButton } from "~/components/PostButton";
+import { renderDeep } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "System"} · Dutymark` }];
 
@@ -38,8 +39,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     name: bench.system.name,
     project: { id: bench.system.projectId, name: bench.system.projectName },
     input: bench.system.input,
-    view: workbenchView(bench),
-    unitSystem: m.user.unitSystem as UnitSystem,
+    view: renderDeep(workbenchView(bench), m.user.units),
+    unitSystem: m.user.units,
     role: m.role,
     canWrite: can(m.role, "project.write"),
     canSelect: can(m.role, "selection.write"),
@@ -55,11 +56,11 @@ export async function action({ request, params }: Route.ActionArgs) {
   const intent = String(form.get("intent") ?? "save");
   const needs = intent === "select" ? "selection.write" : "project.write";
   if (!can(m.role, needs)) throw new Response(`Your role (${m.role}) cannot do this.`, { status: 403 });
-  const sys = m.user.unitSystem as UnitSystem;
+  const sys = m.user.units;
   switch (intent) {
     case "save": {
       const { input, name, errors } = readSystemForm(form, sys);
-      if (!input) return { errors, notice: null };
+      if (!input) return { errors: renderDeep(errors, sys), notice: null };
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
       return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved.", saved: true };
@@ -87,7 +88,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
-      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000));
+      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000), sys);
       throw redirect(`/selections/${sid}`);
     }
   }
@@ -125,7 +126,7 @@ export default function SystemPage() {
   };
   const view = (draft && live) || d.view;
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
-  const errors = { ...(a?.errors ?? {}), ...liveErrors };
+  const errors = { ...(a?.errors ?? {}), ...renderDeep(liveErrors, d.unitSystem) };
   const f = systemFormValues(d.input, d.unitSystem);
   const ro = !d.canWrite;
   return (

@@ -25,6 +25,7 @@ import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { useFormResult } from "~/components/useFormResult";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -105,7 +106,6 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const fmtDate = (iso: string) => iso.slice(0, 10);
 const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
 
 /** The paid plan's price as Stripe states it, or where to find it when it could not be read. */

@@ -11,6 +11,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { PostButton } from "~/components/PostButton";
 import { ListTable } from "~/components/ListTable";
 import { useFormResult } from "~/components/useFormResult";
+import { fmtDate } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" }];
 
@@ -202,7 +203,7 @@ export default function Workspace() {
               {d.invites.map((i) => (
                 <li key={i.id} className="flex items-center justify-between border-t border-slate-100 py-1">
                   <span>
-                    {i.email} as {i.role} · expires {i.expiresAt.slice(0, 10)}
+                    {i.email} as {i.role} · expires {fmtDate(i.expiresAt)}
                   </span>
                   <PostButton intent="revoke-invite" field="invitationId" id={i.id} className="btn-quiet py-0.5">
                     Withdraw

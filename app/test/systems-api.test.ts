@@ -15,6 +15,7 @@ import { searchResultView } from "~/lib/projects/search-view";
 import { call, makeMember, type TestMember } from "./harness";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
+import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -58,7 +59,9 @@ describe("GET /api/v1/systems/:id", () => {
     const body = r.body as ReturnType<typeof workbenchView> & { input: SystemInput; system: { id: number; name: string } };
     expect(body.system).toMatchObject({ id: systemId, name: "Booster" });
     expect(body.input.duty).toEqual({ flow: 40 / 3600, head: 38 });
-    const expected = JSON.parse(JSON.stringify(workbenchView(await systemWorkbench(v, systemId))));
+    // A token's API answers in SI: the view's quantity tokens written out in SI units.
+    const expected = renderDeep(JSON.parse(JSON.stringify(workbenchView(await systemWorkbench(v, systemId)))), SI_UNITS);
+    expect(JSON.stringify(body)).not.toContain("⟦");
     expect(body.evaluation).toEqual(expected.evaluation);
     expect(body.candidates).toEqual(expected.candidates);
     expect(body.candidates).toHaveLength(1);
@@ -114,7 +117,7 @@ describe("GET /api/v1/systems/:id/search", () => {
       expect(x.figures.efficiency).toBe(p.efficiency);
       const pv = (p as { verdict?: unknown }).verdict;
       expect(pv).toBeDefined();
-      expect(x.verdict).toEqual(JSON.parse(JSON.stringify(pv)));
+      expect(x.verdict).toEqual(renderDeep(JSON.parse(JSON.stringify(pv)), SI_UNITS));
       expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain((x.verdict as { status: string }).status);
     }
   });

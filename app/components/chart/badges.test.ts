@@ -7,6 +7,8 @@ import { describe, expect, it } from "vitest";
 import { placeBadges, BADGE_SPACING } from "./badges.ts";
 import { buildChartModel } from "./model.ts";
 import type { PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
 
 const line = (id: string, h1 = 20, q1 = 0.2, h0 = 40): PumpSeries => ({
   id,
@@ -17,7 +19,7 @@ const line = (id: string, h1 = 20, q1 = 0.2, h0 = 40): PumpSeries => ({
   ],
 });
 const place = (pumps: PumpSeries[]) => {
-  const m = buildChartModel({ unitSystem: "SI", pumps });
+  const m = buildChartModel({ unitSystem: SI_UNITS, pumps });
   return placeBadges(m, m.panels[0], m.pumps).map((b) => ({ id: b.p.id, bx: b.bx, by: b.by }));
 };
 

@@ -25,6 +25,9 @@ import {
 import { sampleProps } from "./sample.ts";
 import { linePump } from "./test-pumps.ts";
 import type { DutyChartProps } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
+const US_UNITS = UNIT_SYSTEMS.US;
 
 const render = (p: DutyChartProps) => renderToStaticMarkup(createElement(DutyChart, p));
 const count = (html: string, needle: string) => html.split(needle).length - 1;
@@ -38,7 +41,7 @@ function section(html: string, attr: string, tag: string): string {
 
 
 const base = (over: Partial<DutyChartProps> = {}): DutyChartProps => ({
-  unitSystem: "SI",
+  unitSystem: SI_UNITS,
   title: "Test chart title",
   description: "Test chart description",
   pumps: [linePump()],
@@ -128,8 +131,18 @@ describe("other pure helpers", () => {
 });
 
 describe("conversion to display units", () => {
-  const si = displayUnits("SI");
-  const us = displayUnits("US");
+  const si = displayUnits(SI_UNITS);
+  const us = displayUnits(US_UNITS);
+  it("each axis follows its own quantity's choice: L/s flow, ft head, hp power (0.1 m³/s = 100 L/s, 30 m = 98.43 ft, 1 hp = 745.69987 W, NIST SP 811)", () => {
+    const mixed = displayUnits({ ...SI_UNITS, flow: "L/s", head: "ft", power: "hp" });
+    expect([mixed.flow.label, mixed.head.label, mixed.npsh.label, mixed.power.label]).toEqual(["L/s", "ft", "ft", "hp"]);
+    expect(flowToDisplay(0.1, mixed)).toBeCloseTo(100, 9);
+    expect(valueToDisplay("head", 30, mixed)).toBeCloseTo(30 / 0.3048, 9);
+    expect(valueToDisplay("power", 745.69987158, mixed)).toBeCloseTo(1, 6);
+    const model = buildChartModel({ ...sampleProps(), unitSystem: { ...SI_UNITS, flow: "L/s", head: "ft" } });
+    expect(JSON.stringify(model)).toContain("L/s");
+    expect(JSON.stringify(model)).not.toContain("m³/h");
+  });
   it("0.1 m³/s is 360 m³/h (1 h = 3600 s, SI definition)", () => {
     expect(flowToDisplay(0.1, si)).toBeCloseTo(360, 9);
     expect(si.flow.label).toBe("m³/h");
@@ -267,7 +280,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(siPoints).toContain("75.0"); // %
     expect(siPoints).toContain("40.0"); // kW
 
-    const us = render({ ...props, unitSystem: "US" });
+    const us = render({ ...props, unitSystem: US_UNITS });
     const usPoints = section(us, 'data-table="points"', "table");
     expect(usPoints).toContain("Flow (gpm)");
     expect(usPoints).toContain("1585.0");
@@ -305,7 +318,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(readout).toContain("Flow 360.0 m³/h");
     expect(readout).toContain(">30.0<");
     expect(readout).toContain(">—<"); // short pump ends at 180 m³/h
-    const us = render({ ...props, unitSystem: "US" });
+    const us = render({ ...props, unitSystem: US_UNITS });
     expect(us).toContain(">98.4<");
 
     expect(render(base())).not.toContain('data-mark="crosshair"');

@@ -1,15 +1,15 @@
 /**
- * SI ↔ display units for the duty chart: the unit preset of a unit system, flow both ways,
+ * SI ↔ display units for the duty chart: the user's unit per quantity, flow both ways,
  * any series value to display (efficiency 0..1 → %), whole series. Pure; no React, no DOM.
  */
-import { fromSI, unitLabel, UNIT_SYSTEMS } from "../../engine/units.ts";
+import { fromSI, unitLabel } from "../../engine/units.ts";
 import { cleanPoints } from "./curves.ts";
 import type { Pt, UnitSystemId } from "./types.ts";
 
 /** What a series measures; decides its display unit. */
 export type SeriesKind = "head" | "efficiency" | "power" | "npsh";
 
-/** Display units of one unit system: unit ids (for `fromSI`) and labels. */
+/** Display units of one choice: unit ids (for `fromSI`) and labels. */
 export interface DisplayUnits {
   flow: { id: string; label: string };
   head: { id: string; label: string };
@@ -19,9 +19,8 @@ export interface DisplayUnits {
   efficiency: { id: "%"; label: "%" };
 }
 
-/** Display units for a unit system preset (SI: m³/h, m, kW; US: gpm, ft, hp). */
-export function displayUnits(system: UnitSystemId): DisplayUnits {
-  const preset = UNIT_SYSTEMS[system];
+/** Display units of the user's choice (flow, head and power each as chosen; NPSH in the head unit). */
+export function displayUnits(preset: UnitSystemId): DisplayUnits {
   const head = { id: preset.head, label: unitLabel("head", preset.head) };
   return {
     flow: { id: preset.flow, label: unitLabel("flow", preset.flow) },

@@ -6,13 +6,15 @@ import { describe, expect, it } from "vitest";
 import { opSummary } from "./Legend.tsx";
 import { buildChartModel, type ChartModelInput } from "./model.ts";
 import type { PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
 
 const head = [
   { flow: 0, y: 40 },
   { flow: 0.2, y: 20 },
 ];
 const summary = (p: Partial<PumpSeries>, over: Partial<ChartModelInput> = {}) => {
-  const m = buildChartModel({ unitSystem: "SI", pumps: [{ id: "a", label: "a", head, ...p }], ...over });
+  const m = buildChartModel({ unitSystem: SI_UNITS, pumps: [{ id: "a", label: "a", head, ...p }], ...over });
   return opSummary(m.pumps[0], m);
 };
 

@@ -7,6 +7,8 @@ import { describe, expect, it } from "vitest";
 import { buildChartModel, type ChartModelInput } from "./model.ts";
 import { placeReadout } from "./readout-place.ts";
 import type { PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
 
 const linePump = (id = "p1"): PumpSeries => ({
   id,
@@ -16,7 +18,7 @@ const linePump = (id = "p1"): PumpSeries => ({
     { flow: 0.2, y: 20 },
   ],
 });
-const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: "SI", pumps: [linePump()], ...over });
+const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: SI_UNITS, pumps: [linePump()], ...over });
 
 describe("placeReadout (100 × 50 px box, cursor at x 379 px)", () => {
   it("with nothing under it, the box goes right of the cursor (379 + 14 px) at the top of the panel (22 + 6 px)", () => {

@@ -3,7 +3,8 @@
  * parabolic efficiency, power from P = ρ·g·Q·H/η, a system curve H = Hs + K·Q² with a band.
  * Numbers are made up for drawing; they describe no real pump.
  */
-import type { DutyChartProps, Pt, PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+import type { DutyChartProps, Pt, PumpSeries, UnitSystemId } from "./types.ts";
 
 const RHO = 998.2; // kg/m³, water at 20 °C
 const G = 9.80665;
@@ -49,7 +50,8 @@ function pump(
 }
 
 /** Sample chart props: duty 0.1 m³/s at 30 m, system Hs = 12 m, K = 1800 s²/m⁵. */
-export function sampleProps(unitSystem: "SI" | "US" = "SI"): DutyChartProps {
+export function sampleProps(units: "SI" | "US" | UnitSystemId = "SI"): DutyChartProps {
+  const unitSystem = typeof units === "string" ? UNIT_SYSTEMS[units] : units;
   const hs = 12;
   const ks = 1800;
   return {

@@ -10,13 +10,15 @@ import { DutyChart } from "./DutyChart.tsx";
 import { buildChartModel, type ChartModelInput } from "./model.ts";
 import { NpshaCurve, PumpHeadCurves, PumpPanelCurves, SystemBand, type LayerProps } from "./Series.tsx";
 import type { PumpSeries } from "./types.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
 
 const head = [
   { flow: 0, y: 40 },
   { flow: 0.2, y: 20 },
 ];
 const pump = (id: string, over: Partial<PumpSeries> = {}): PumpSeries => ({ id, label: id, head, ...over });
-const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: "SI", pumps: [pump("a")], ...over });
+const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: SI_UNITS, pumps: [pump("a")], ...over });
 function layer(C: FunctionComponent<LayerProps>, model: ReturnType<typeof modelOf>, kind = "head", opacityOf = () => 1) {
   const panel = model.panels.find((p) => p.kind === kind)!;
   return renderToStaticMarkup(createElement("svg", null, createElement(C, { model, panel, pumps: model.pumps, opacityOf })));
@@ -30,7 +32,7 @@ describe("curve layers", () => {
     expect(layer(PumpHeadCurves, m)).toContain('d="M56,82L637.4,202"');
     const withNaN = pump("a", { head: [head[0], { flow: Number.NaN, y: 3 }, { flow: 0.1, y: Number.POSITIVE_INFINITY }, head[1]] });
     const html = renderToStaticMarkup(
-      createElement(DutyChart, { unitSystem: "SI", title: "t", description: "d", pumps: [withNaN], defaultCursorFlow: 0.1 }),
+      createElement(DutyChart, { unitSystem: SI_UNITS, title: "t", description: "d", pumps: [withNaN], defaultCursorFlow: 0.1 }),
     );
     expect(html).not.toMatch(/NaN|Infinity/);
   });

@@ -3,6 +3,7 @@
  * efficiency as a fraction 0..1, shaft power W, NPSH m. The chart converts to the user's
  * display units at the edge (see `scales.ts`).
  */
+import type { UnitPreset } from "../../engine/units.ts";
 
 /** One curve point: flow (m³/s) and the curve's value (SI, see the series it belongs to). */
 export type Pt = { flow: number; y: number };
@@ -43,7 +44,8 @@ export type PumpSeries = {
 /** System curve (head m vs flow m³/s) and its band: low/high static × new/aged pipe. */
 export type SystemCurves = { design: Pt[]; low?: Pt[]; high?: Pt[] };
 
-export type UnitSystemId = "SI" | "US";
+/** The display unit per quantity (the user's choice; the engine's presets are two of them). */
+export type UnitSystemId = UnitPreset;
 
 export type DutyChartProps = {
   unitSystem: UnitSystemId;

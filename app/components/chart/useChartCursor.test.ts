@@ -15,9 +15,11 @@ import {
   keepsCursorOnLeave,
   tickStepOf,
 } from "./useChartCursor.ts";
+import { UNIT_SYSTEMS } from "../../engine/units.ts";
+const SI_UNITS = UNIT_SYSTEMS.SI;
 
 const H = 3600; // m³/h per m³/s (SI definition of the hour)
-const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: "SI", pumps: [linePump()], ...over });
+const modelOf = (over: Partial<ChartModelInput> = {}) => buildChartModel({ unitSystem: SI_UNITS, pumps: [linePump()], ...over });
 
 describe("geometry the checks rely on (model, by construction)", () => {
   it("flow axis 0–800 m³/h on x 56–702 px, ticks every 100 m³/h", () => {
@@ -44,7 +46,7 @@ describe("pointer → cursor flow (flowAtViewX)", () => {
     expect(flowAtViewX(m, 702 + OUTSIDE_PX + 0.1)).toBeNull();
   });
   it("an empty chart (no curves) still maps the pointer: axis 0–1 m³/h, middle 0.5 m³/h (by construction)", () => {
-    const e = buildChartModel({ unitSystem: "SI", pumps: [] });
+    const e = buildChartModel({ unitSystem: SI_UNITS, pumps: [] });
     expect(e.empty).toBe(true);
     expect(flowAtViewX(e, 379)! * H).toBeCloseTo(0.5, 12);
   });

@@ -25,6 +25,7 @@ import { GaugeInputs } from "./GaugeInputs";
 import { BIG_INPUT, ChoiceSelect, FieldError, inputId, NumberField, UnitSelect, type Errors } from "./inputs";
 import { putQueued, type QueuedCheck } from "./queue";
 import { sendWaiting } from "./sync";
+import { renderUnits, type UnitChoice } from "~/lib/shared/units";
 
 /** Field names as the summary at the top names them. */
 const LABELS: Record<string, string> = {
@@ -41,6 +42,8 @@ type Props = {
   selection: FormSelection;
   /** "userId/workspaceId" of the signed-in contractor: the queue sends only their checks. */
   owner: string;
+  /** The reader's units: messages worked out on the phone are rendered in them. */
+  units: UnitChoice;
   fields: CheckFields;
   serverErrors: Errors;
   amends: { id: number; version: number } | null;
@@ -88,7 +91,7 @@ export function CheckForm(props: Props) {
         const result = evaluateCheck(selection.frozen, parsed.readings, raw.gradeId);
         local = { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head };
       } catch (e) {
-        found._form = `These readings cannot be worked out: ${e instanceof Error ? e.message : String(e)}.`;
+        found._form = `These readings cannot be worked out: ${renderUnits(e instanceof Error ? e.message : String(e), props.units)}.`;
       }
     }
     if (!local) {
@@ -129,7 +132,7 @@ export function CheckForm(props: Props) {
       return;
     }
     onQueued();
-    setSaved(`Kept on this phone: ${local.verdictText} as worked out here. It is waiting to send and goes to the server when there is a network.`);
+    setSaved(`Kept on this phone: ${renderUnits(local.verdictText, props.units)} as worked out here. It is waiting to send and goes to the server when there is a network.`);
   }
 
   const submitting = busy || navigation.state === "submitting";

@@ -4,7 +4,8 @@
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
-import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "../units";
+import { fmtDateTime } from "~/lib/shared/format";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
 export function usePendingChecks(owner: string, selectionId: number | null) {
@@ -28,7 +29,7 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
   return { queued, sent, refresh, send, setSent };
 }
 
-export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitSystem; showSelection?: boolean }) {
+export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean }) {
   const { queued, sent, refresh, send, setSent } = props.pending;
   const sys = props.unitSystem;
   if (!queued.length && !sent.length) return null;
@@ -49,13 +50,13 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 <span className="font-semibold">{c.status === "waiting" ? "Waiting to send" : c.status === "conflict" ? "Conflict: not recorded" : "Refused by the server"}</span>
                 {" · "}
                 {props.showSelection ? `${c.selectionTitle} · ` : ""}
-                {c.createdAt.slice(0, 16).replace("T", " ")}
+                {fmtDateTime(c.createdAt)}
               </p>
               <p className="text-slate-700">
-                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {c.local.verdictText}. The server works it out again when it
+                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}. The server works it out again when it
                 is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
               </p>
-              {c.message ? <p className="font-semibold text-fail">{c.message}</p> : null}
+              {c.message ? <p className="font-semibold text-fail">{renderUnits(c.message, sys)}</p> : null}
               {c.status === "conflict" ? (
                 <button
                   type="button"

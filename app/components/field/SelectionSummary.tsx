@@ -1,7 +1,8 @@
 // The head of a selection's check page (what was selected) and its list of recorded checks.
 import { VerdictBadge } from "../fieldcheck";
 import type { Verdict } from "~/lib/fieldchecks";
-import { fmtFlow, fmtHead, type UnitSystem } from "../units";
+import { fmtFlow, fmtHead, type UnitChoice } from "../units";
+import { fmtDateTime } from "~/lib/shared/format";
 
 export type SummarySelection = {
   id: number;
@@ -17,7 +18,7 @@ export type SummarySelection = {
   dutyPumps: number;
 };
 
-export function SelectionSummary({ selection, unitSystem }: { selection: SummarySelection; unitSystem: UnitSystem }) {
+export function SelectionSummary({ selection, unitSystem }: { selection: SummarySelection; unitSystem: UnitChoice }) {
   return (
     <header>
       <p className="text-sm">
@@ -63,7 +64,7 @@ export type HistoryEntry = {
   flowSource: string;
 };
 
-export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitSystem }) {
+export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitChoice }) {
   return (
     <section className="panel">
       <div className="flex items-center justify-between gap-2">
@@ -81,7 +82,7 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
           {history.map((check) => (
             <li key={check.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <a href={`/field/checks/${check.id}`} className="inline-block py-2">
-                Check {check.id} v{check.version} · {check.createdAt.slice(0, 16).replace("T", " ")}
+                Check {check.id} v{check.version} · {fmtDateTime(check.createdAt)}
                 {check.superseded ? " (amended later)" : ""}
               </a>
               <span className="text-slate-600">

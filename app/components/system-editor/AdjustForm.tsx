@@ -1,13 +1,13 @@
 // How one candidate is run: as published, by speed or trim (ratio or solved for the duty),
 // single/parallel/series with standby, motor rating, service factor and efficiency class.
 import { Form } from "react-router";
-import { fromSI, IE_CLASSES, UNIT_SYSTEMS, unitLabel } from "~/engine";
-import type { UnitSystem } from "~/lib/projects/system-form";
+import { fromSI, IE_CLASSES, unitLabel } from "~/engine";
+import type { UnitChoice } from "~/lib/shared/units";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 
-export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; error?: string }) {
+export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; error?: string }) {
   const a = c.adjustment;
-  const powerUnit = UNIT_SYSTEMS[unitSystem].power;
+  const powerUnit = unitSystem.power;
   return (
     <Form method="post" className="space-y-1 text-xs">
       <input type="hidden" name="candidateId" value={c.id} />

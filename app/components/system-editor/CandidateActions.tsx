@@ -1,12 +1,12 @@
 // What a member may do with one candidate in the table: adjust it (writers), select it into a
 // frozen selection (selection writers, only with an operating point), remove it (writers).
 import { Form } from "react-router";
-import type { FormErrors, UnitSystem } from "~/lib/projects/system-form";
+import type { FormErrors, UnitChoice } from "~/lib/projects/system-form";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
 import { PostButton } from "~/components/PostButton";
 
-export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitSystem; errors: FormErrors; canWrite: boolean; canSelect: boolean }) {
+export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean; canSelect: boolean }) {
   if (!canWrite && !canSelect) return null;
   return (
     <div className="space-y-2">

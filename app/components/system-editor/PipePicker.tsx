@@ -3,7 +3,7 @@
 // diameter of the chosen size shown at once. Without JavaScript the two selects still post.
 import { useMemo, useState } from "react";
 import { PIPE_TABLES, type PipeTable } from "~/engine";
-import { fmtQ, type UnitSystem } from "~/components/units";
+import { fmtQ, type UnitChoice } from "~/components/units";
 
 /** Tables grouped by standard, in catalogue order. */
 export function groupByStandard(tables: readonly PipeTable[]): { standard: string; tables: PipeTable[] }[] {
@@ -27,7 +27,7 @@ export function searchPipeTables(query: string, tables: readonly PipeTable[] = P
   });
 }
 
-export function PipePicker({ index, table, nominal, unitSystem, error }: { index: number; table: string; nominal: string; unitSystem: UnitSystem; error?: string }) {
+export function PipePicker({ index, table, nominal, unitSystem, error }: { index: number; table: string; nominal: string; unitSystem: UnitChoice; error?: string }) {
   const [query, setQuery] = useState("");
   const [tableId, setTableId] = useState(table);
   const [size, setSize] = useState(nominal);

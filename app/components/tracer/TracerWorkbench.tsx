@@ -19,13 +19,13 @@ const TOOLS: [Tool, string][] = [
   ["pan", "Pan"],
 ];
 
-export function TracerWorkbench(props: { src: string; type: string; filename: string; imperial: boolean }) {
+export function TracerWorkbench(props: { src: string; type: string; filename: string; units: { flow: string; head: string } }) {
   const isPdf = props.type === "application/pdf";
   const [page, setPage] = useState(1);
   const [renderScale, setRenderScale] = useState(1.5);
   const [picture, setPicture] = useState<Picture | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
-  const [s, set] = useState<TracerState>(() => initialState(props.imperial));
+  const [s, set] = useState<TracerState>(() => initialState(props.units));
   const [tool, setTool] = useState<Tool>("xref");
   const [selected, setSelected] = useState<Selection>(null);
   const [colour, setColour] = useState<{ rgb: Rgb; seed: Px } | null>(null);

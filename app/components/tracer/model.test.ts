@@ -11,7 +11,7 @@ describe("tracer page model", () => {
   const img = drawChart({ islands: true });
   const all = { u0: 0, v0: 0, u1: img.width - 1, v1: img.height - 1 };
   const ref = (q: number, h: number, value: number) => ({ u: paper(q, h)[0], v: paper(q, h)[1], value });
-  const base = initialState(false);
+  const base = initialState();
   const xRefs = [ref(10, 0, 10), ref(90, 0, 90)];
   const yRefs = [ref(0, 10, 10), ref(0, 50, 50)];
   const cal = calibrate({ xRefs, yRefs, xScale: "linear", yScale: "linear" });

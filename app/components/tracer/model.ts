@@ -39,13 +39,17 @@ export const UNITS: Record<Quantity | "flow", Unit[]> = {
 };
 export const QUANTITY_LABEL: Record<Quantity, string> = { head: "Head", efficiency: "Efficiency", power: "Shaft power", npshr: "NPSHr" };
 
-export function initialState(imperial: boolean): TracerState {
+/** The tracer's id for one of the user's units (the importer spells "L/s" as "l/s"), else the fallback. */
+const tracerUnit = (list: Unit[], id: string, fallback: Unit): Unit => list.find((u) => u.toLowerCase() === id.toLowerCase()) ?? fallback;
+
+/** A fresh page, axes in the user's flow and head units where the tracer knows them. */
+export function initialState(units: { flow: string; head: string } = { flow: "m3/h", head: "m" }): TracerState {
   return {
     model: "",
-    flowUnit: imperial ? "gpm" : "m3/h",
+    flowUnit: tracerUnit(UNITS.flow, units.flow, "m3/h"),
     flowScale: "linear",
     xRefs: [],
-    panels: [{ id: 1, quantity: "head", unit: imperial ? "ft" : "m", scale: "linear", refs: [] }],
+    panels: [{ id: 1, quantity: "head", unit: tracerUnit(UNITS.head, units.head, "m"), scale: "linear", refs: [] }],
     curves: [{ id: 1, panelId: 1, kind: "curve", impellerMm: 0, speedRpm: 2900, level: 0, points: [] }],
     activePanel: 1,
     activeCurve: 1,

@@ -14,6 +14,8 @@ import { uniqueSlug } from "../workspaces/workspaces.server";
 
 import { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS } from "../shared/constants";
 import { settings } from "../shared/env.server";
+import type { PresetId } from "../shared/units";
+import type { Quantity } from "~/engine";
 import { forgetTokens } from "./token-cache.server";
 export { EMAIL_TOKEN_TTL, INVITE_TTL_DAYS };
 
@@ -179,7 +181,8 @@ export async function requireVerified(userId: string, what: string): Promise<voi
   if (!u?.v) throw data(`Confirm your e-mail address before ${what}.`, { status: 403 });
 }
 
-export async function updateProfile(userId: string, input: { name: string; unitSystem: "SI" | "US" }) {
-  await db().update(users).set(input).where(eq(users.id, userId));
+/** Name and units: the preset and the per-quantity overrides (ids already checked against the engine's units). */
+export async function updateProfile(userId: string, input: { name: string; unitSystem: PresetId; units?: Partial<Record<Quantity, string>> }) {
+  await db().update(users).set({ name: input.name, unitSystem: input.unitSystem, units: JSON.stringify(input.units ?? {}) }).where(eq(users.id, userId));
 }
 

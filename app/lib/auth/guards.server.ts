@@ -8,6 +8,7 @@ import { can, READ_ONLY_PERMISSIONS, type Permission, type Role } from "./permis
 import { hashSecret } from "./secrets.server";
 import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
+import { SI_UNITS, type UnitChoice } from "../shared/units";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
 export type Member = Auth & {
@@ -66,6 +67,8 @@ export type ApiCaller = {
   role: Role;
   via: "token" | "session";
   scope: "read" | "write";
+  /** Units for text with quantities: the user's on our own pages (session), SI for tokens (the API is SI). */
+  units: UnitChoice;
 };
 
 /**
@@ -99,7 +102,7 @@ export async function requireApi(request: Request, permission: Permission): Prom
     if (!row.lastUsedAt || Date.now() - row.lastUsedAt.getTime() > 60_000) {
       await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
     }
-    caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope };
+    caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope, units: SI_UNITS };
     rememberToken(tokenHash, { caller, tokenId: row.id, lastUsedAt: Date.now() });
   } else {
     const auth = await getAuth(request);
@@ -107,7 +110,7 @@ export async function requireApi(request: Request, permission: Permission): Prom
     const { current } = await currentMembership(auth);
     if (!current) throw forbidden("You are not a member of any workspace.");
     const { role, ...workspace } = current;
-    caller = { userId: auth.user.id, workspace, role, via: "session", scope: "write" };
+    caller = { userId: auth.user.id, workspace, role, via: "session", scope: "write", units: auth.user.units };
   }
   return authorise(caller, permission);
 }

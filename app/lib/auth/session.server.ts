@@ -7,6 +7,7 @@ import { affectedRows, db } from "@db/client.server";
 import { sessions, signInAttempts, users } from "@db/schema";
 import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
+import { picksOf, unitsOf, type PresetId } from "../shared/units";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
 
@@ -29,6 +30,10 @@ function makeLucia() {
       name: a.name,
       emailVerified: Boolean(a.emailVerified),
       unitSystem: a.unitSystem,
+      /** The display unit of every quantity: the preset with the user's overrides (unknown ids fall back to the preset). */
+      units: unitsOf(a.unitSystem, a.units),
+      /** What the user picked per quantity (the account page's selects; the rest follows the preset). */
+      unitPicks: picksOf(a.units),
       currentWorkspaceId: a.currentWorkspaceId,
     }),
     getSessionAttributes: (a) => ({ createdAt: a.createdAt, userAgent: a.userAgent, ipAddress: a.ipAddress }),
@@ -47,7 +52,8 @@ declare module "lucia" {
       email: string;
       name: string;
       emailVerified: boolean | number;
-      unitSystem: "SI" | "US";
+      unitSystem: PresetId;
+      units: string;
       currentWorkspaceId: number | null;
     };
     DatabaseSessionAttributes: { createdAt: Date; userAgent: string; ipAddress: string };

@@ -9,6 +9,7 @@ import { createApiToken, revokeApiToken } from "./api-tokens.server";
 import { changeRole, removeMember } from "../workspaces";
 import { requireApi } from "./guards.server";
 import { TOKEN_CACHE_MS, cachedToken, forgetTokens, rememberToken } from "./token-cache.server";
+import { SI_UNITS } from "../shared/units";
 
 afterAll(() => closeDb());
 
@@ -56,7 +57,7 @@ describe("verified API tokens are remembered for a few seconds", () => {
   });
 
   test("entries expire after TOKEN_CACHE_MS", () => {
-    const caller = { userId: "u", workspace: { id: 1, name: "w", slug: "w", plan: "free" as const }, role: "engineer" as const, via: "token" as const, scope: "read" as const };
+    const caller = { userId: "u", workspace: { id: 1, name: "w", slug: "w", plan: "free" as const }, role: "engineer" as const, via: "token" as const, scope: "read" as const, units: SI_UNITS };
     rememberToken("h-expiry", { caller, tokenId: 1, lastUsedAt: 0 }, 1_000);
     expect(cachedToken("h-expiry", 1_000 + TOKEN_CACHE_MS - 1)).not.toBeNull();
     expect(cachedToken("h-expiry", 1_000 + TOKEN_CACHE_MS)).toBeNull();

@@ -6,6 +6,7 @@ import { problem } from "../shared/problem.server";
 import { hitRateLimit } from "../shared/ratelimit.server";
 import { runCalc } from "./calculations";
 import { ANON_RATE_LIMIT, BODY_FIELD, CALC_LIMITS, MAX_ERRORS, type CalcEndpoint, type CalcOutcome, type FieldError } from "./schemas";
+import { renderDeep, SI_UNITS } from "../shared/units";
 
 // ───────────────────────────── HTTP edge ─────────────────────────────
 
@@ -144,7 +145,8 @@ export async function calcAction(request: Request, endpoint: CalcEndpoint, opts:
     console.error(`calc ${endpoint} failed`, e);
     return problem({ title: "Internal Server Error", status: 500, detail: "The calculation failed unexpectedly; this is our fault." }, headers);
   }
-  if (!out.ok) return validationProblem(out.errors, headers);
+  // The calculators answer in SI (field names carry the unit): quantity tokens in engine messages are written out in SI.
+  if (!out.ok) return validationProblem(renderDeep(out.errors, SI_UNITS), headers);
   headers.set("Content-Type", "application/json");
-  return new Response(JSON.stringify(out.body), { status: 200, headers });
+  return new Response(JSON.stringify(renderDeep(out.body, SI_UNITS)), { status: 200, headers });
 }

@@ -20,6 +20,7 @@ import {
 import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import type { CheckResult, Pt } from "./result";
+import { qt } from "~/engine/quantityText";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 
@@ -125,7 +126,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // Both gauges on the gauge reference; an absolute reading is taken relative to the standard atmosphere.
   const asGauge = (g: Readings["suction"]) => (g.reference === "absolute" ? g.pressure - STANDARD_ATMOSPHERE : g.pressure);
   const mixed = readings.suction.reference !== readings.discharge.reference;
-  if (mixed) warnings.push("One gauge is absolute and the other is gauge: the absolute reading was taken relative to the standard atmosphere (101.325 kPa); local barometric pressure differs.");
+  if (mixed) warnings.push(`One gauge is absolute and the other is gauge: the absolute reading was taken relative to the standard atmosphere (${qt("pressure", 101325)}); local barometric pressure differs.`);
   const ps = asGauge(readings.suction);
   const pd = asGauge(readings.discharge);
 
@@ -212,10 +213,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   return result;
 }
 
-/** The sentence with the delivered duty point, SI display units (m³/h, m), for the e-mail. */
+/** The sentence with the delivered duty point, quantities as tokens (rendered in the reader's units), for the e-mail. */
 export function deliveredSentence(r: CheckResult): string {
-  const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
-  const m = (h: number) => `${h.toFixed(1)} m`;
+  const m3h = (q: number) => qt("flow", q);
+  const m = (h: number) => qt("head", h);
   const q = r.delivered.flow;
   const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
   const first = q !== null ? `Delivered ${m3h(q)} (${src}) at ${m(r.delivered.head)}` : `Measured head ${m(r.delivered.head)}; flow could not be inferred`;

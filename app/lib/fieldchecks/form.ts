@@ -1,7 +1,8 @@
 // The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
-import { fromSI, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { fromSI, toSI, unitLabel, type Quantity } from "~/engine";
+import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
 
@@ -71,30 +72,30 @@ export type CheckFields = Record<string, string>;
 export const labelOf = (q: Quantity, unit: string) => unitLabel(q, unit);
 
 /**
- * Defaults for a blank form in the user's unit system; pipe diameters (m) and the fluid
+ * Defaults for a blank form in the user's units (each quantity as chosen, where the form offers that unit); pipe diameters (m) and the fluid
  * temperature (°C) from the selection when known, converted by the engine's unit table.
  */
-export function blankFields(sys: "SI" | "US", known: { suction?: number | null; discharge?: number | null; temperatureC?: number | null } = {}): CheckFields {
-  const u = UNIT_SYSTEMS[sys];
-  const diameterUnit = u.diameter === "in" ? "in" : "mm";
-  const temperatureUnit = sys === "US" ? "F" : "C";
+export function blankFields(u: UnitChoice, known: { suction?: number | null; discharge?: number | null; temperatureC?: number | null } = {}): CheckFields {
+  const among = <T extends string>(list: readonly T[], id: string, fallback: T): T => (list as readonly string[]).includes(id) ? (id as T) : fallback;
+  const diameterUnit = among(DIAMETER_UNITS, u.diameter, "mm");
+  const temperatureUnit = among(TEMPERATURE_UNITS, u.temperature, "C");
   const diameter = (metres?: number | null) => (metres && metres > 0 ? String(Number(fromSI("diameter", diameterUnit, metres).toFixed(diameterUnit === "in" ? 3 : 1))) : "");
   const temperatureC = known.temperatureC ?? 20;
   return {
-    pressureUnit: sys === "US" ? "psi" : "kPa",
+    pressureUnit: among(PRESSURE_UNITS, u.pressure, "kPa"),
     sRef: "gauge",
     dRef: "gauge",
     sPressure: "",
     dPressure: "",
     sAccuracy: "",
     dAccuracy: "",
-    elevationUnit: sys === "US" ? "ft" : "m",
+    elevationUnit: among(ELEVATION_UNITS, u.length, "m"),
     sElevation: "0",
     dElevation: "0",
     diameterUnit,
     sDiameter: diameter(known.suction),
     dDiameter: diameter(known.discharge),
-    flowUnit: sys === "US" ? "gpm" : "m3/h",
+    flowUnit: among(FLOW_UNITS, u.flow, "m3/h"),
     flow: "",
     flowAccuracy: "",
     speedMode: "rpm",
@@ -103,7 +104,7 @@ export function blankFields(sys: "SI" | "US", known: { suction?: number | null; 
     baseHz: "50",
     baseRpm: "",
     powerMode: "none",
-    powerUnit: sys === "US" ? "hp" : "kW",
+    powerUnit: among(POWER_UNITS, u.power, "kW"),
     power: "",
     volts: "",
     amps: "",

@@ -4,10 +4,11 @@
 import { data } from "react-router";
 import { parseId } from "../shared/forms.server";
 import type { Viewer } from "../libraries";
+import type { UnitChoice } from "../shared/units";
 import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
 import { checkHistory, getFieldCheck } from "./records.server";
 
-export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: "SI" | "US", amendParam: string) {
+export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: UnitChoice, amendParam: string) {
   const history = await checkHistory(viewer, selectionId);
   const selection = history.selection;
   const frozen = selection.frozen;

@@ -17,6 +17,7 @@ import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
 import { appUrl } from "../auth/accounts.server";
 import { deliveredSentence, evaluateCheck } from "./evaluate";
+import { renderUnits, unitsOf } from "../shared/units";
 import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
 import type { CheckResult } from "./result";
 import { PhotoRejected, type PhotoIn } from "./photos.server";
@@ -283,16 +284,18 @@ export async function recordFieldCheck(viewer: Viewer, selectionId: number, inpu
 async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fieldSelection>>, checkId: number, r: CheckResult, kind: "new" | "amended") {
   const userId = sel.createdBy ?? sel.projectCreatedBy;
   if (!userId) return null;
-  const [to] = await db().select({ email: users.email, name: users.name }).from(users).where(eq(users.id, userId));
+  const [to] = await db().select({ email: users.email, name: users.name, unitSystem: users.unitSystem, units: users.units }).from(users).where(eq(users.id, userId));
   if (!to) return null;
   const [me] = await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, viewer.userId));
   const checkedBy = `${me?.name || me?.email || "A member"} (${viewer.workspace.name})`;
   const link = `${appUrl()}/field/checks/${checkId}`;
-  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${deliveredSentence(r)}`;
+  const units = unitsOf(to.unitSystem, to.units); // the mail speaks the engineer's units
+  const title = renderUnits(sel.title, units);
+  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${renderUnits(deliveredSentence(r), units)}`;
   let msg;
   if (r.verdict === "unknown") {
     // The shared template has words for pass / marginal / fail only; without a flow meter there is no verdict.
-    const selection = oneLine(sel.title);
+    const selection = oneLine(title);
     const project = oneLine(sel.projectName);
     const text = [
       to.name ? `Hello ${oneLine(to.name)},` : "Hello,",
@@ -311,7 +314,7 @@ async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fie
       .join("");
     msg = { subject: `Field check on ${selection} (${project}): no tolerance verdict`, text, html };
   } else {
-    msg = fieldCheckMail({ engineerName: to.name, checkedBy, projectName: sel.projectName, selectionName: sel.title, verdict: r.verdict, detail, link });
+    msg = fieldCheckMail({ engineerName: to.name, checkedBy, projectName: sel.projectName, selectionName: title, verdict: r.verdict, detail, link });
   }
   try {
     return await sendMail({ to: to.email, ...msg });

@@ -1,12 +1,14 @@
-/** How curves are named to people: "Model · 2900 rpm · Ø190 mm" (never the internal key). Pure. */
+/** How curves are named to people: "Model · 2900 rpm · Ø190 mm" (never the internal key), the diameter as a quantity token
+ * (rendered in the reader's units where the name is shown; `renderUnits` in app/lib/shared/units.ts). Pure. */
+import { qt } from "../../engine/quantityText.ts";
 
 const round = (x: number, digits: number) => String(Math.round(x * 10 ** digits) / 10 ** digits);
 
-/** impellerM in metres (SI, as stored); shown in mm. */
+/** impellerM in metres (SI, as stored). */
 export function curveName(model: string, speed: number | null, impellerM: number | null): string {
   const parts = [model];
   if (speed != null) parts.push(`${round(speed, 1)} rpm`);
-  if (impellerM != null) parts.push(`Ø${round(impellerM * 1000, 2)} mm`);
+  if (impellerM != null) parts.push(`Ø${qt("diameter", impellerM)}`);
   return parts.join(" · ");
 }
 

@@ -4,6 +4,7 @@ import { analyseCsv } from "./index";
 import type { Mapping } from "./mapping";
 import { CurveSetSchema } from "./validate";
 import { fixture } from "./test-helpers";
+import { inSI } from "~/engine/quantityText"; // problem texts carry quantity tokens
 
 const HEAD = "Model,Speed (rpm),Impeller (mm),Flow (m3/h),Head (m)";
 
@@ -31,7 +32,7 @@ describe("bad.csv: each problem kind named with row, column and reason", () => {
     expect(reason("not-a-number")).toContain("3l.5"); // source: bad.csv line 9
     expect(reason("negative")).toContain("-1.2"); // source: bad.csv line 13
     expect(reason("flow-not-increasing")).toContain("line 16"); // source: bad.csv line 16 is the previous point
-    expect(reason("head-rising")).toContain("4.5 m"); // source: bad.csv lines 20→21, 39.5 → 44.0 m
+    expect(inSI(reason("head-rising"))).toContain("4.50 m"); // source: bad.csv lines 20→21, 39.5 → 44.0 m
     expect(reason("efficiency-over-100")).toContain("104"); // source: bad.csv line 25
     expect(reason("too-few-points")).toContain("2 good point"); // source: bad.csv lines 27-28
     expect(reason("duplicate-curve")).toContain("lines 2–6"); // source: bad.csv first BR-40A block

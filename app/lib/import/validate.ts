@@ -22,6 +22,7 @@ import type { Cell, LongRow } from "./mapping";
 import { parseNumber } from "./numbers";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
+import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // ---------- output schemas (exported so the service can re-check before it writes) ----------
 
@@ -222,7 +223,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     if (b && b.run !== run) {
       discardedRuns.add(run);
       add(lr.line, modelCell?.column ?? null, "duplicate-curve",
-        `${model} at ${speed ?? "?"} rpm${impeller ? `, impeller ${Math.round(impeller * 1e6) / 1e3} mm` : ""} already appears on lines ${b.firstLine}–${b.lastLine}; this repeat was skipped`, key);
+        `${model} at ${speed ?? "?"} rpm${impeller ? `, impeller ${qt("diameter", impeller)}` : ""} already appears on lines ${b.firstLine}–${b.lastLine}; this repeat was skipped`, key);
       continue;
     }
     if (!b) {
@@ -275,7 +276,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       if (r.runOut) {
         if (k >= tail)
           add(r.line, r.headColumn, "run-out",
-            `run-out point past zero head (head ${fmt(r.point.head)} m) at the end of the curve; dropped, the curve is kept`, key, "warning");
+            `run-out point past zero head (head ${qt("head", r.point.head)}) at the end of the curve; dropped, the curve is kept`, key, "warning");
         else for (const p of r.runOut) add(p.row, p.column, p.code, p.reason, key);
         continue;
       }
@@ -292,7 +293,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         const rise = p.head - prev.point.head;
         if (rise > 0.05 * shutoff + 1e-12) {
           add(r.line, r.headColumn, "head-rising",
-            `head rises by ${fmt(rise)} m from line ${prev.line}, more than 5 % of the shutoff head (${fmt(shutoff)} m)`, key);
+            `head rises by ${qt("head", rise)} from line ${prev.line}, more than 5 % of the shutoff head (${qt("head", shutoff)})`, key);
           continue;
         }
       } else shutoff = p.head;
@@ -303,7 +304,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
         if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
           add(r.line, null, "inconsistent",
-            `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${density} kg/m³): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
+            `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
             key, "warning");
       }
     }

@@ -4,6 +4,8 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { analyseCsv, curveName, curveNameOfKey, decodeBytes, type Mapping } from "./index";
+import { inSI, renderQuantities } from "~/engine/quantityText";
+import { UNIT_SYSTEMS } from "~/engine";
 import { fixture } from "./test-helpers";
 
 const bytes = (name: string) => new Uint8Array(readFileSync(new URL(`../../../fixtures/csv/${name}`, import.meta.url)));
@@ -138,8 +140,10 @@ describe("P, η, Q, H consistency (η = ρgQH/P)", () => {
 
 describe("curve names for people", () => {
   it('"Model · 2900 rpm · Ø190 mm"', () => {
-    expect(curveName("Brackenfell BX-80", 2900, 0.19)).toBe("Brackenfell BX-80 · 2900 rpm · Ø190 mm"); // source: issue 16 wording
-    expect(curveNameOfKey("Brackenfell BX-80||190")).toBe("Brackenfell BX-80 · Ø190 mm"); // no speed
+    // The diameter is a quantity token, shown in the reader's units: SI here; 190 mm = 7.48 in (1 in = 25.4 mm, NIST SP 811).
+    expect(inSI(curveName("Brackenfell BX-80", 2900, 0.19))).toBe("Brackenfell BX-80 · 2900 rpm · Ø190 mm"); // source: issue 16 wording
+    expect(renderQuantities(curveName("Brackenfell BX-80", 2900, 0.19), UNIT_SYSTEMS.US)).toBe("Brackenfell BX-80 · 2900 rpm · Ø7.48 in");
+    expect(inSI(curveNameOfKey("Brackenfell BX-80||190"))).toBe("Brackenfell BX-80 · Ø190 mm"); // no speed
     expect(curveNameOfKey("A|B|1450|")).toBe("A|B · 1450 rpm"); // a "|" inside the model name survives
   });
 });

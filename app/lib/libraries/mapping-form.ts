@@ -2,7 +2,10 @@
 // user's field and unit per column, layout, defaults, fill-down, run-out policy and encoding; and the
 // fix grid's edited cells. Anything unreadable is an error message, never an exception.
 import * as v from "valibot";
-import { ENCODINGS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
+import { DIAMETER_UNITS, ENCODINGS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
+
+/** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
+export const impellerUnitOf = (x: unknown): (typeof DIAMETER_UNITS)[number] => DIAMETER_UNITS.find((u) => u === x) ?? "mm";
 
 /** The encoding the user chose, if it is one we decode. */
 export function encodingFromForm(form: FormData): Encoding | undefined {
@@ -39,7 +42,7 @@ export function mappingFromForm(form: FormData): { mapping?: Mapping; error?: st
   m.defaults = {
     model: model || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: "mm" as const } : {}),
+    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: impellerUnitOf(form.get("defaultImpellerUnit")) } : {}),
     fluid: fluid || undefined,
   };
   m.fillDownModel = form.get("fillDownModel") === "on";

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readAdjustForm } from "./adjust-form";
+import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 const form = (o: Record<string, string>) => {
   const f = new FormData();
@@ -10,26 +11,26 @@ const base = { method: "speed", ratio: "", arrangement: "single", dutyPumps: "1"
 
 describe("readAdjustForm", () => {
   it("reads a blank ratio as 'solve for the duty' and a blank motor as 'suggested'", () => {
-    const r = readAdjustForm(form(base), "SI");
+    const r = readAdjustForm(form(base), SI_UNITS);
     expect(r.adjustment).toMatchObject({ method: "speed", ratio: null, motorRating: 0, serviceFactor: 1 });
   });
   it("takes a decimal comma and converts the motor rating from the user's power unit", () => {
     // 1 hp = 745.69987158227 W (NIST SP 811, from 550 ft·lbf/s)
-    const us = readAdjustForm(form({ ...base, ratio: "92,5", motorRating: "10", serviceFactor: "1,15" }), "US");
+    const us = readAdjustForm(form({ ...base, ratio: "92,5", motorRating: "10", serviceFactor: "1,15" }), US_UNITS);
     expect(us.adjustment?.ratio).toBeCloseTo(0.925, 12);
     expect(us.adjustment?.motorRating).toBeCloseTo(7456.9987158227, 6);
     expect(us.adjustment?.serviceFactor).toBeCloseTo(1.15, 12);
-    expect(readAdjustForm(form({ ...base, motorRating: "7,5" }), "SI").adjustment?.motorRating).toBe(7500);
+    expect(readAdjustForm(form({ ...base, motorRating: "7,5" }), SI_UNITS).adjustment?.motorRating).toBe(7500);
   });
   it("refuses a ratio just outside 30–120 % and accepts it at the edge", () => {
-    expect(readAdjustForm(form({ ...base, ratio: "29.9" }), "SI").error).toMatch(/0\.3|30|ratio|Invalid/i);
-    expect(readAdjustForm(form({ ...base, ratio: "30" }), "SI").adjustment?.ratio).toBeCloseTo(0.3, 12);
-    expect(readAdjustForm(form({ ...base, ratio: "120" }), "SI").adjustment?.ratio).toBeCloseTo(1.2, 12);
-    expect(readAdjustForm(form({ ...base, ratio: "120.1" }), "SI").adjustment).toBeNull();
+    expect(readAdjustForm(form({ ...base, ratio: "29.9" }), SI_UNITS).error).toMatch(/0\.3|30|ratio|Invalid/i);
+    expect(readAdjustForm(form({ ...base, ratio: "30" }), SI_UNITS).adjustment?.ratio).toBeCloseTo(0.3, 12);
+    expect(readAdjustForm(form({ ...base, ratio: "120" }), SI_UNITS).adjustment?.ratio).toBeCloseTo(1.2, 12);
+    expect(readAdjustForm(form({ ...base, ratio: "120.1" }), SI_UNITS).adjustment).toBeNull();
   });
   it("refuses an unknown method, NaN and Infinity", () => {
-    expect(readAdjustForm(form({ ...base, method: "magic" }), "SI").adjustment).toBeNull();
-    expect(readAdjustForm(form({ ...base, ratio: "NaN" }), "SI").adjustment).toBeNull();
-    expect(readAdjustForm(form({ ...base, serviceFactor: "Infinity" }), "SI").adjustment).toBeNull();
+    expect(readAdjustForm(form({ ...base, method: "magic" }), SI_UNITS).adjustment).toBeNull();
+    expect(readAdjustForm(form({ ...base, ratio: "NaN" }), SI_UNITS).adjustment).toBeNull();
+    expect(readAdjustForm(form({ ...base, serviceFactor: "Infinity" }), SI_UNITS).adjustment).toBeNull();
   });
 });

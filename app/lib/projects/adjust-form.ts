@@ -2,13 +2,13 @@
 // the ratio in percent (blank: solve for the duty), the motor rating in the user's power unit
 // (blank or 0: suggested). Pure: the route validates with AdjustmentSchema through this.
 import * as v from "valibot";
-import { toSI, UNIT_SYSTEMS } from "~/engine";
+import { toSI } from "~/engine";
 import { AdjustmentSchema, type Adjustment } from "./hydraulics";
-import type { UnitSystem } from "./system-form";
+import type { UnitChoice } from "../shared/units";
 
 const num = (x: FormDataEntryValue | null) => Number(String(x ?? "").trim().replace(",", "."));
 
-export function readAdjustForm(form: FormData, sys: UnitSystem): { adjustment: Adjustment; error: null } | { adjustment: null; error: string } {
+export function readAdjustForm(form: FormData, sys: UnitChoice): { adjustment: Adjustment; error: null } | { adjustment: null; error: string } {
   const ratioRaw = String(form.get("ratio") ?? "").trim();
   const motorRaw = num(form.get("motorRating")) || 0;
   const adj = v.safeParse(AdjustmentSchema, {
@@ -17,7 +17,7 @@ export function readAdjustForm(form: FormData, sys: UnitSystem): { adjustment: A
     arrangement: form.get("arrangement"),
     dutyPumps: Number(form.get("dutyPumps") || 1),
     standbyPumps: Number(form.get("standbyPumps") || 0),
-    motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? toSI("power", UNIT_SYSTEMS[sys].power, motorRaw) : 0,
+    motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? toSI("power", sys.power, motorRaw) : 0,
     serviceFactor: num(form.get("serviceFactor") ?? "1") || 1,
     ieClass: form.get("ieClass") ?? undefined,
   });

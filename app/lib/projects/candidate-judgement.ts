@@ -30,6 +30,7 @@ import {
   type SystemCase,
   type Verdict,
 } from "~/engine";
+import { qt } from "~/engine/quantityText";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -48,8 +49,9 @@ export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: 
 export const GOVERNING_CASE: SystemCase = { level: "max", roughness: "aged" };
 export const governingName = (mode: "open" | "closed-loop") => (mode === "open" ? "most lift, aged pipe" : "aged pipe");
 
-const m3h = (q: number) => `${(q * 3600).toFixed(1)} m³/h`;
-const m = (h: number) => `${h.toFixed(1)} m`;
+// Quantities as tokens: rendered in the reader's units where the text is shown.
+const m3h = (q: number) => qt("flow", q);
+const m = (h: number) => qt("head", h);
 
 /** Why a solve found no operating point, in words with the numbers. */
 export function noPointReason(op: OperatingPointResult): string {
@@ -137,7 +139,7 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }): S
   }
   const tr = trimForDuty(ctx.base, per);
   if (tr.status === "ok" && tr.ratio) {
-    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${(tr.diameter * 1000).toFixed(0)} mm)` : ""}, approximate` });
+    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate` });
   }
   return out;
 }

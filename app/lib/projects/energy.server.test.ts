@@ -16,6 +16,7 @@ import { lifeCycleCost } from "~/engine";
 import { call, makeMember, type TestMember } from "~/test/harness";
 import { workspacesOf } from "../auth/guards.server";
 import * as systemPage from "~/routes/systems.$id";
+import { SI_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -76,13 +77,13 @@ describe("duty cycle and life-cycle cost on the workbench", () => {
       ["energy.years", "20"], ["energy.escalation", "2.5"], ["energy.discount", "6"],
     ]);
     const f = { get: (k: string) => form.get(k) ?? null };
-    const r = readSystemForm(f, "SI");
+    const r = readSystemForm(f, SI_UNITS);
     expect(r.errors).toEqual({});
     expect(r.input!.energy).toEqual({ control: "proportional-pressure", profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }], years: 20, escalation: 0.025, discountRate: 0.06 });
     form.set("energy.step.1.pct", "170");
     form.set("energy.years", "0");
     form.set("energy.step.2.hours", "12");
-    const bad = readSystemForm(f, "SI");
+    const bad = readSystemForm(f, SI_UNITS);
     expect(bad.input).toBeNull();
     expect(Object.keys(bad.errors).sort()).toEqual(["energy.step.1.pct", "energy.step.2.pct", "energy.years"]);
     expect(s.input.energy!.control).toBe("fixed-speed");

@@ -32,6 +32,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 export * from "./system-input";
 export * from "./candidate-input";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, verdictOnBand, type BandPoint, type MotorFigures } from "./candidate-judgement";
+import { qt } from "~/engine/quantityText";
 
 export type RunReport = {
   name: string;
@@ -87,11 +88,11 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
   const edge = governingName(input.mode);
   const difference = (input.duty.head - governingHead) / governingHead;
   const differs = Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
-  const q = `${(input.duty.flow * 3600).toFixed(1)} m³/h`;
+  const q = qt("flow", input.duty.flow);
   const message = differs
-    ? `The typed duty head ${input.duty.head.toFixed(1)} m differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${governingHead.toFixed(1)} m at ${edge} (${designHead.toFixed(1)} m on the design curve). More than 3 % apart: check the duty or the pipe runs.`
-    : `The typed duty head ${input.duty.head.toFixed(1)} m agrees within 3 % with the system's ${governingHead.toFixed(1)} m at ${q} (${edge}).`;
-  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${governingHead.toFixed(1)} m, ${edge}); the pump search uses the typed duty head (${input.duty.head.toFixed(1)} m).`;
+    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
+    : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
+  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
   return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
 }
 
@@ -118,8 +119,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     });
     const guide = VELOCITY_GUIDE[r.side];
     const warnings = wText(res.warnings);
-    if (res.velocity > guide.max) warnings.push(`Velocity ${res.velocity.toFixed(2)} m/s is above the usual ${guide.max} m/s for a ${r.side} line.`);
-    if (res.velocity < guide.min) warnings.push(`Velocity ${res.velocity.toFixed(2)} m/s is below the usual ${guide.min} m/s for a ${r.side} line.`);
+    if (res.velocity > guide.max) warnings.push(`Velocity ${qt("velocity", res.velocity)} is above the usual ${qt("velocity", guide.max)} for a ${r.side} line.`);
+    if (res.velocity < guide.min) warnings.push(`Velocity ${qt("velocity", res.velocity)} is below the usual ${qt("velocity", guide.min)} for a ${r.side} line.`);
     return { name: r.name, side: r.side, velocity: res.velocity, reynolds: res.reynolds, frictionFactor: res.frictionFactor, regime: res.regime, headLoss: res.headLoss, warnings };
   });
   const npsha = curve.flows.map((q) => {
@@ -207,13 +208,13 @@ export function evaluateCandidate(
       const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: input.duty.flow, head: hSys / n } : { flow: input.duty.flow, head: hSys };
       const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
       warnings.push(...wText(sol.warnings));
-      const where = `the system's head at the duty flow ${(input.duty.flow * 3600).toFixed(1)} m³/h, ${hSys.toFixed(1)} m at ${governingName(input.mode)} (typed duty head ${input.duty.head.toFixed(1)} m)`;
+      const where = `the system's head at the duty flow ${qt("flow", input.duty.flow)}, ${qt("head", hSys)} at ${governingName(input.mode)} (typed duty head ${qt("head", input.duty.head)})`;
       if (sol.status === "ok" && sol.ratio) {
         ratio = sol.ratio;
         ratioNote = `solved to deliver the duty flow against ${where}`;
       } else if (sol.status === "duty-above-curve") {
         const h1 = perPump.flow >= base.flowMin && perPump.flow <= base.flowMax ? headAt(base, perPump.flow) : null;
-        ratioNote = `could not be solved: ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${h1.toFixed(1)} m per pump at ${(perPump.flow * 3600).toFixed(1)} m³/h)` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it`;
+        ratioNote = `could not be solved: ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${qt("head", h1)} per pump at ${qt("flow", perPump.flow)})` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it`;
       } else {
         ratioNote = `could not be solved against ${where}: ${sol.message}`;
       }
@@ -271,7 +272,7 @@ export function evaluateCandidate(
     warnings.push(...motor.warnings);
     const limit = motor.rating != null ? motor.rating * adj.serviceFactor : null;
     const nonOverloading = limit != null && f.maxPower ? f.maxPower.power <= limit : null;
-    if (nonOverloading === false) warnings.push(`largest power on the curve ${(f.maxPower!.power / 1000).toFixed(2)} kW exceeds motor rating × service factor ${(limit! / 1000).toFixed(2)} kW`);
+    if (nonOverloading === false) warnings.push(`largest power on the curve ${qt("power", f.maxPower!.power)} exceeds motor rating × service factor ${qt("power", limit!)}`);
     figures = {
       efficiency: f.efficiency,
       hydraulicPower: f.hydraulicPower * k,

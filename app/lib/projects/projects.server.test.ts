@@ -12,6 +12,7 @@ import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "../import";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "../auth/guards.server";
+import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -43,7 +44,7 @@ describe("system evaluation (pure)", () => {
   });
 
   test("the form codec round-trips a system through US units", () => {
-    const values = systemFormValues(WORKED, "US");
+    const values = systemFormValues(WORKED, US_UNITS);
     const fd = new FormData();
     fd.set("name", "x");
     for (const [k, v] of Object.entries(values)) if (typeof v === "string") fd.set(k, v);
@@ -52,7 +53,7 @@ describe("system evaluation (pure)", () => {
       for (const [k, v] of Object.entries(r)) if (typeof v === "string") fd.set(`run.${i}.${k}`, v);
       for (const [id, n] of Object.entries(r.fittings)) fd.set(`run.${i}.fit.${id}`, String(n));
     });
-    const back = readSystemForm(fd, "US");
+    const back = readSystemForm(fd, US_UNITS);
     expect(back.errors).toEqual({});
     // Five significant digits in the form: relative 1e-4 (by construction of show()).
     expect(back.input!.runs[0].diameter).toBeCloseTo(0.2, 4);
@@ -71,7 +72,7 @@ describe("system evaluation (pure)", () => {
     fd.set("runCount", "1");
     fd.set("run.0.diameter", "-3");
     fd.set("run.0.length", "10");
-    const r = readSystemForm(fd, "SI");
+    const r = readSystemForm(fd, SI_UNITS);
     expect(r.input).toBeNull();
     expect(Object.keys(r.errors)).toEqual(expect.arrayContaining(["name", "temperature", "dutyHead", "run.0.diameter"]));
   });
@@ -136,6 +137,15 @@ describe("projects, candidates and selections", () => {
     await adjustCandidate(eng, added.id, { ...DEFAULT_ADJUSTMENT, method: "none" });
     const again = await getSelection(eng, selId);
     expect(again.frozen.result.ratio).toBe(sel.frozen.result.ratio);
+    // The title as the form showed it (the label in the selecting user's units) is kept as the label with its
+    // token, so a reader in other units sees their own; a title the user typed is kept as typed.
+    expect(c.label).toMatch(/Ø⟦diameter\|[\d.e-]+⟧$/); // the demo curves name their impeller
+    const shown = renderUnits(c.label, US_UNITS);
+    expect(shown).toMatch(/Ø\d+\.\d+ in$/);
+    const asShown = await getSelection(eng, await selectCandidate(eng, added.id, shown, "", US_UNITS));
+    expect(asShown.title).toBe(c.label);
+    expect(renderUnits(asShown.title, SI_UNITS)).toMatch(/Ø\d+(\.\d)? mm$/);
+    expect((await getSelection(eng, await selectCandidate(eng, added.id, "Pump A", "", US_UNITS))).title).toBe("Pump A");
   });
 
   test(`at most ${MAX_CANDIDATES} candidates, none twice`, async () => {

@@ -22,6 +22,7 @@ import {
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
 import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
+import { candidateLabel } from "./labels";
 
 export const MAX_CANDIDATES = 6;
 export const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
@@ -212,7 +213,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
       return {
         id: r.c.id,
         curveSetId: r.c.curveSetId,
-        label: `${set.model}${set.speed ? ` · ${Math.round(set.speed)} rpm` : ""}${set.impellerDiameter ? ` · Ø${Math.round(set.impellerDiameter * 1000)} mm` : ""}`,
+        label: candidateLabel(set),
         model: set.model,
         library: r.libraryName,
         adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,

@@ -13,6 +13,7 @@ import { searchForSystem } from "./search.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { makeMember } from "~/test/harness";
 import { workspacesOf } from "../auth/guards.server";
+import { inSI } from "~/engine/quantityText";
 
 afterAll(() => closeDb());
 
@@ -68,7 +69,7 @@ describe("search: outside the catalogue only when asked", () => {
     // The case: TFS Meregate 150 trimmed to Ø165 mm while its smallest published impeller is Ø175 mm (demo data).
     const meregate = outside.find((x) => x.model === "TFS Meregate 150" && x.method === "trim")!;
     expect(meregate.diameter! * 1000).toBeLessThan(175);
-    expect(meregate.verdict!.reasons[0]).toMatch(/below the smallest the model publishes \(Ø175 mm\)/);
+    expect(inSI(meregate.verdict!.reasons[0])).toMatch(/below the smallest the model publishes \(Ø175 mm\)/);
     expect(plain.results.some((x) => x.model === "TFS Meregate 150" && x.method === "trim")).toBe(false);
   });
 

@@ -8,11 +8,12 @@ import type { LibraryCurveSet, Viewer } from "../libraries";
 import type { Adjustment, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
 import { notFound, ownCandidate, systemWorkbench } from "./projects.server";
+import { selectionTitle, type UnitChoice } from "./labels";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
-/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result. */
-export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string) {
+/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result (title: `selectionTitle`). */
+export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
   const cand = bench.candidates.find((x) => x.id === c.id);
@@ -54,7 +55,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: title || cand.label,
+      title: selectionTitle(title, cand.label, units),
       note,
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,

@@ -1,11 +1,12 @@
 // The system editor's form codec: SystemInput (SI) ⇄ form fields in the user's units.
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
-import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
+import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
+import { labelOf, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
-export type UnitSystem = "SI" | "US";
+export { labelOf, unitOf, type UnitChoice };
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -24,11 +25,9 @@ export const EDITOR_FITTINGS = [
   ["exit", "Exit into tank"],
 ] as const;
 
-export const unitOf = (sys: UnitSystem, q: Quantity) => UNIT_SYSTEMS[sys][q];
-export const labelOf = (sys: UnitSystem, q: Quantity) => unitLabel(q, unitOf(sys, q));
 
 /** SI → display number, rounded to a sensible number of significant digits for a form field. */
-export function show(sys: UnitSystem, q: Quantity, si: number, digits = 5): string {
+export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): string {
   const x = fromSI(q, unitOf(sys, q), si);
   if (!Number.isFinite(x)) return "";
   if (x === 0) return "0";
@@ -57,7 +56,7 @@ export type FormLike = { get(name: string): FormDataEntryValue | null };
  * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
  * ranges. Returns the errors keyed by field name (for messages next to the fields).
  */
-export function readSystemForm(f: FormLike, sys: UnitSystem): { input: SystemInput | null; name: string; errors: FormErrors } {
+export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInput | null; name: string; errors: FormErrors } {
   const errors: FormErrors = {};
   const si = (q: Quantity, key: string, label: string, optional = false) => {
     const n = readNumber(f, key, errors, { label, optional });
@@ -171,7 +170,7 @@ function fieldFor(path: unknown[]): string {
 }
 
 /** Field values for the editor in display units (strings, as typed). */
-export function systemFormValues(input: SystemInput, sys: UnitSystem) {
+export function systemFormValues(input: SystemInput, sys: UnitChoice) {
   return {
     fluidKind: input.fluid.kind,
     fluidName: input.fluid.kind === "custom" ? input.fluid.name : "",

@@ -5,6 +5,7 @@ import * as v from "valibot";
 import { fluidAt, innerDiameter, material as materialOf, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
+import { qt } from "~/engine/quantityText";
 
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
 const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
@@ -22,11 +23,11 @@ export const PipeRunSchema = v.object({
   pipeTable: v.pipe(v.string(), v.maxLength(40)),
   nominal: v.pipe(v.string(), v.maxLength(20)),
   /** Inner diameter, m. */
-  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, "Inner diameter above 5 m? Check the unit.")),
+  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, `Inner diameter above ${qt("diameter", 5)}? Check the unit.`)),
   material: v.pipe(v.string(), v.maxLength(40)),
   /** Absolute roughness new and aged, m. */
-  roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, "Roughness above 50 mm? Check the unit.")),
-  agedRoughness: v.pipe(nonNeg("Aged roughness"), v.maxValue(0.05, "Aged roughness above 50 mm? Check the unit.")),
+  roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, `Roughness above ${qt("roughness", 0.05)}? Check the unit.`)),
+  agedRoughness: v.pipe(nonNeg("Aged roughness"), v.maxValue(0.05, `Aged roughness above ${qt("roughness", 0.05)}? Check the unit.`)),
   /** Length, m. */
   length: v.pipe(nonNeg("Length"), v.maxValue(1e6, "Length above 1000 km? Check the unit.")),
   fittings: v.pipe(v.array(FittingUseSchema), v.maxLength(40)),
@@ -45,7 +46,7 @@ export const SystemInputSchema = v.object({
       vaporPressure: nonNeg("Vapour pressure"), // Pa
     }),
   ]),
-  temperatureC: v.pipe(num("Temperature"), v.minValue(-50, "Temperature below −50 °C?"), v.maxValue(300, "Temperature above 300 °C?")),
+  temperatureC: v.pipe(num("Temperature"), v.minValue(-50, `Temperature below ${qt("temperature", -50)}?`), v.maxValue(300, `Temperature above ${qt("temperature", 300)}?`)),
   mode: v.picklist(["open", "closed-loop"]),
   /** Discharge surface minus suction surface elevation, least and most lift, m. */
   staticLow: num("Static head (low level)"),

@@ -1,6 +1,7 @@
 // What every domain uses, public face for loaders, actions and scripts (server only: it re-exports
 // `.server` modules; browser code imports the pure files by path: `csv`, `constants`). Input reading
-// (forms.server), the one CSV writer (csv), settings (env.server), problem+json (problem.server,
+// (forms.server), the one CSV writer (csv), the user's units per quantity (units) and number/date
+// formatting (format), settings (env.server), problem+json (problem.server,
 // api-errors.server), rate limits, health, the lists the schema shares (constants). `body-limits.mjs`
 // is read by `app/serve.mjs` too and is imported by path.
 export * from "./forms.server";
@@ -11,3 +12,5 @@ export * from "./api-errors.server";
 export * from "./ratelimit.server";
 export * from "./health.server";
 export * from "./constants";
+export * from "./units";
+export * from "./format";

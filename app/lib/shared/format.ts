@@ -1,0 +1,39 @@
+/**
+ * Numbers and dates for reading, in one place (server and browser give the same text: fixed
+ * locale, times in UTC, so a page hydrates without a difference).
+ */
+
+/** A number for reading: fixed decimals per magnitude (the engine's, so quantity tokens read the same). */
+export { fmtNum } from "~/engine/quantityText";
+
+/** A fraction as a percentage, e.g. 0.723 → "72.3 %". */
+export const fmtPct = (x: number | null | undefined, digits = 1) => (x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`);
+
+const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+/** A whole number with thousands separators, e.g. 12345 → "12,345". */
+export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
+
+const DATE_PARTS = new Intl.DateTimeFormat("en-GB", {
+  timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23",
+});
+
+function parts(when: string | Date | null | undefined): Record<string, string> | null {
+  if (when == null || when === "") return null;
+  // A zone-less "2026-12-02 14:09:00" (how the database connector gives DATETIME) is UTC, as stored; never the browser's zone.
+  const text = typeof when === "string" && /^\d{4}-\d{2}-\d{2}([ T]\d{2}:\d{2}(:\d{2}(\.\d+)?)?)?$/.test(when) ? `${when.replace(" ", "T")}${when.length > 10 ? "Z" : "T00:00Z"}` : when;
+  const d = text instanceof Date ? text : new Date(text);
+  if (Number.isNaN(d.getTime())) return null;
+  return Object.fromEntries(DATE_PARTS.formatToParts(d).map((p) => [p.type, p.value]));
+}
+
+/** A date (UTC) as "2026-12-02"; "—" when missing or not a date. */
+export function fmtDate(when: string | Date | null | undefined): string {
+  const p = parts(when);
+  return p ? `${p.year}-${p.month}-${p.day}` : "—";
+}
+
+/** A moment (UTC) as "2026-12-02 14:09"; the caller adds " UTC" where the page says so. */
+export function fmtDateTime(when: string | Date | null | undefined): string {
+  const p = parts(when);
+  return p ? `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}` : "—";
+}

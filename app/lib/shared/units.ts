@@ -1,0 +1,119 @@
+/**
+ * The user's display units: ONE definition for the server and the browser. A choice names a unit
+ * id per quantity (ids of `UNITS` in `app/engine/units.ts`); the SI and US presets come from the
+ * engine's `UNIT_SYSTEMS`; stored per-quantity overrides are checked against `UNITS[q]` and an
+ * unknown id falls back to the preset. Formatters and the renderer of quantity tokens (`qt()` in
+ * the engine: `⟦flow|0.0111⟧`) live here too, so every page, report and e-mail follows the choice.
+ */
+import { fromSI, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
+import { fmtQuantity, renderQuantities } from "~/engine/quantityText";
+
+export { fmtNum, fmtPct } from "./format";
+
+/** Unit id per quantity, e.g. `{ flow: "L/s", head: "m", … }`. */
+export type UnitChoice = UnitPreset;
+/** The presets a user starts from (stored in `users.unit_system`). */
+export const PRESET_IDS = ["SI", "US"] as const;
+export type PresetId = (typeof PRESET_IDS)[number];
+export const PRESETS: Readonly<Record<PresetId, UnitChoice>> = UNIT_SYSTEMS;
+export const SI_UNITS: UnitChoice = UNIT_SYSTEMS.SI;
+export const US_UNITS: UnitChoice = UNIT_SYSTEMS.US;
+
+/** Every quantity the app converts, in the order the account page lists them. */
+export const QUANTITIES = Object.keys(UNITS) as Quantity[];
+
+/** The quantities a user may set one by one on the account page (the others follow the preset). */
+export const SETTABLE: readonly Quantity[] = [
+  "flow", "head", "pressure", "power", "length", "diameter", "roughness", "temperature", "velocity",
+  "density", "dynamicViscosity", "kinematicViscosity", "energy",
+];
+
+/** Human names of the quantities (account page, CSV headers). */
+export const QUANTITY_NAMES: Readonly<Record<Quantity, string>> = {
+  flow: "Flow", head: "Head", pressure: "Pressure", power: "Power", length: "Length (pipe runs, elevations)",
+  diameter: "Diameter (pipes, impellers)", roughness: "Pipe roughness", temperature: "Temperature", velocity: "Velocity",
+  energy: "Energy", density: "Density", dynamicViscosity: "Dynamic viscosity", kinematicViscosity: "Kinematic viscosity", speed: "Speed",
+};
+
+export const isPreset = (x: unknown): x is PresetId => x === "SI" || x === "US";
+export const isUnitOf = (q: Quantity, id: unknown): id is string => typeof id === "string" && UNITS[q].some((d) => d.id === id);
+
+/** The valid per-quantity picks of stored overrides (an object or its JSON text); anything else is dropped. */
+export function picksOf(overrides: unknown): Partial<Record<Quantity, string>> {
+  let o: unknown = overrides;
+  if (typeof o === "string") {
+    try {
+      o = JSON.parse(o);
+    } catch {
+      o = null;
+    }
+  }
+  if (!o || typeof o !== "object" || Array.isArray(o)) return {};
+  const rec = o as Record<string, unknown>;
+  const out: Partial<Record<Quantity, string>> = {};
+  for (const q of QUANTITIES) if (isUnitOf(q, rec[q])) out[q] = rec[q];
+  return out;
+}
+
+/**
+ * The choice from a preset and per-quantity overrides (an object or its JSON text, as stored).
+ * An unknown preset is SI; an override that is not a unit of its quantity falls back to the preset.
+ */
+export function unitsOf(preset: unknown, overrides?: unknown): UnitChoice {
+  const base = PRESETS[isPreset(preset) ? preset : "SI"];
+  const picks = picksOf(overrides);
+  return Object.keys(picks).length ? { ...base, ...picks } : base;
+}
+
+/** The preset a choice equals, or null for a mixed choice. */
+export function presetOf(choice: UnitChoice): PresetId | null {
+  return PRESET_IDS.find((p) => QUANTITIES.every((q) => PRESETS[p][q] === choice[q])) ?? null;
+}
+
+/** The chosen unit id of a quantity. */
+export const unitOf = (u: UnitChoice, q: Quantity): string => u[q];
+/** The chosen unit's label, e.g. `"m³/h"`. */
+export const labelOf = (u: UnitChoice, q: Quantity): string => unitLabel(q, u[q]);
+/** SI value → the chosen unit. */
+export const toChosen = (u: UnitChoice, q: Quantity, si: number): number => fromSI(q, u[q], si);
+/** A value typed in the chosen unit → SI. */
+export const fromChosen = (u: UnitChoice, q: Quantity, value: number): number => toSI(q, u[q], value);
+
+/** An SI value as text in the chosen unit, e.g. `"42.0 m³/h"`; "—" for a missing or non-finite value. */
+export const fmtQ = fmtQuantity;
+
+export const fmtFlow = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "flow", si);
+export const fmtHead = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "head", si);
+export const fmtPower = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "power", si);
+export const fmtPressure = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "pressure", si);
+
+/** Renders the quantity tokens (`qt()` in the engine) of a text in the chosen units; text without tokens is unchanged. */
+export const renderUnits = renderQuantities;
+
+/**
+ * Renders every string inside a value (objects, arrays) — for a loader's answer or a stored
+ * document on its way to a page. Returns a copy where something changed; numbers stay numbers.
+ */
+export function renderDeep<T>(value: T, u: UnitChoice): T {
+  if (typeof value === "string") return renderUnits(value, u) as T;
+  if (Array.isArray(value)) {
+    let changed = false;
+    const out = value.map((x) => {
+      const y = renderDeep(x, u);
+      if (y !== x) changed = true;
+      return y;
+    });
+    return (changed ? out : value) as T;
+  }
+  if (value && typeof value === "object" && Object.getPrototypeOf(value) === Object.prototype) {
+    let changed = false;
+    const out: Record<string, unknown> = {};
+    for (const [k, x] of Object.entries(value)) {
+      const y = renderDeep(x, u);
+      if (y !== x) changed = true;
+      out[k] = y;
+    }
+    return (changed ? out : value) as T;
+  }
+  return value;
+}

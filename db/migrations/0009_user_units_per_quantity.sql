@@ -1,0 +1,1 @@
+ALTER TABLE `users` ADD `units` varchar(1000) DEFAULT '{}' NOT NULL;
