@@ -1,7 +1,7 @@
 // Read API for systems: the workbench view (as the live preview) and the duty-point search, for
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
 // services it calls (getSystem → 404 for another workspace's system).
-import { curvesOfRevisions, searchableRevisions, type Viewer } from "./libraries.server";
+import type { Viewer } from "./libraries.server";
 import { systemWorkbench } from "./projects.server";
 import { searchForSystem, type SearchFilters } from "./projects/search.server";
 import { workbenchView } from "./workbench-view";
@@ -23,19 +23,14 @@ export async function systemReadView(viewer: Viewer, systemId: number) {
 
 /** { system, duty, results } — the duty-point search against the stored duty, one row per result. */
 export async function systemSearchView(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
+  // Each result carries its model id and library: nothing here reads the catalogue again.
   const res = await searchForSystem(viewer, systemId, filters);
-  // Model id and library of each curve set (cached revisions); used when a result does not carry them.
-  const meta = new Map<number, { modelId: number; library: string }>();
-  if (res.results.length) {
-    const { open } = await searchableRevisions(viewer);
-    for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) meta.set(s.id, { modelId: s.modelId, library: o.name });
-  }
   return {
     units: SI_UNITS,
     system: { id: res.system.id, name: res.system.name, projectId: res.system.projectId, projectName: res.system.projectName },
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
-    results: res.results.map((r) => searchResultView(r as SearchResultIn, meta.get(r.curveSetId))),
+    results: res.results.map((r) => searchResultView(r as SearchResultIn)),
   };
 }
