@@ -92,6 +92,7 @@ export async function appServer(
     served,
     close: () =>
       new Promise((r) => {
+        if (child.exitCode !== null || child.signalCode !== null) return r(); // already gone: no exit event to wait for
         child.once("exit", () => r());
         child.kill("SIGTERM");
       }),

@@ -18,6 +18,7 @@ import { createProject, createSystem, getSystem } from "~/lib/projects.server";
 import { preparedSearch, searchForSystem, searchOptionsFor } from "~/lib/projects/search.server";
 import { defaultSystemInput, evaluateSystem } from "~/lib/hydraulics";
 import { searchDuty } from "~/engine";
+import { stopAnalysisWorker } from "~/lib/upload-analysis.server";
 import { makeMember } from "~/test/harness";
 import { appServer, bigLibraryCsv, timed } from "./http";
 import { runAsScript } from "./run-script";
@@ -109,6 +110,7 @@ export async function runSearchPageBench() {
     out.push(`goals: ${goals.join("; ")}`);
   } finally {
     await app.close();
+    await stopAnalysisWorker(); // the imports' analysis worker would keep this process alive
   }
   return out.join("\n");
 }
