@@ -49,12 +49,31 @@ function bareServer(): Promise<{ url: string; close: () => Promise<void> }> {
   );
 }
 
-export async function appServer(port: number): Promise<{ url: string; pid: number; close: () => Promise<void> }> {
+/**
+ * The built app server on loopback. With `accessLog`, the server's own time per request (its access
+ * log: from the request reaching Express to the last byte handed to the socket) is collected in `served`.
+ */
+export async function appServer(
+  port: number,
+  opts: { accessLog?: boolean } = {},
+): Promise<{ url: string; pid: number; close: () => Promise<void>; served: { path: string; status: number; ms: number }[] }> {
   const child = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
     cwd: ROOT,
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: `http://127.0.0.1:${port}`, MAIL_FLUSH_INTERVAL_MS: "0" },
-    stdio: ["ignore", "ignore", "inherit"],
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: opts.accessLog ? "1" : "0", APP_URL: `http://127.0.0.1:${port}`, MAIL_FLUSH_INTERVAL_MS: "0" },
+    stdio: ["ignore", opts.accessLog ? "pipe" : "ignore", "inherit"],
   });
+  const served: { path: string; status: number; ms: number }[] = [];
+  if (opts.accessLog) {
+    let rest = "";
+    child.stdout!.setEncoding("utf8").on("data", (chunk: string) => {
+      const lines = (rest + chunk).split("\n");
+      rest = lines.pop()!;
+      for (const line of lines) {
+        const m = /^[A-Z]+ (\S+) (\d+) ([\d.]+) ms$/.exec(line);
+        if (m) served.push({ path: m[1], status: Number(m[2]), ms: Number(m[3]) });
+      }
+    });
+  }
   const url = `http://127.0.0.1:${port}`;
   let up = false;
   for (let i = 0; i < 200 && !up && child.exitCode === null; i++) {
@@ -70,8 +89,10 @@ export async function appServer(port: number): Promise<{ url: string; pid: numbe
   return {
     url,
     pid: child.pid!,
+    served,
     close: () =>
       new Promise((r) => {
+        if (child.exitCode !== null || child.signalCode !== null) return r(); // already gone: no exit event to wait for
         child.once("exit", () => r());
         child.kill("SIGTERM");
       }),

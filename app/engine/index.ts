@@ -59,10 +59,9 @@ export {
   fieldCheck, gaugeTdh, gradeCross, withinGrade, TOLERANCE_GRADES,
   type FieldCheckInput, type FieldCheckResult, type GaugeReading, type GradeArm, type GradeCross, type ToleranceGrade,
 } from "./fieldCheck.ts";
-export {
-  prepareSearchIndex, searchDuty, explainRanks,
-  type CurveSet, type SearchIndex, type SearchOptions, type Candidate, type SearchResult,
-} from "./search.ts";
+export { prepareSearchIndex, joinSearchIndexes, type CurveSet, type SearchIndex } from "./searchIndex.ts";
+export { searchDuty, type SearchOptions, type Candidate, type SearchResult } from "./search.ts";
+export { explainRanks } from "./searchExplain.ts";
 export {
   judgeCandidate, catalogueReasons, verdictLabel, VERDICT_STATUSES, DEFAULT_FLOW_TOLERANCE, DEFAULT_SPEED_RANGE, VERDICT_ROUNDOFF,
   type Verdict, type VerdictStatus, type VerdictInput, type BandEdge, type CatalogueLimits, type FlowTolerance, type SavingOption,

@@ -212,6 +212,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     fieldCheck: [[(x) => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: x }), 0.01, [-1]]],
     prepareSearchIndex: [[(x) => E.prepareSearchIndex([{ id: "a", curve: { points: samplePoints(), speed: x } }]).rejected.length === 1 ? (() => { throw new EngineInputError("speed", "rejected"); })() : 0, 2900, [0, -1]]],
     searchDuty: [[(x) => E.searchDuty([{ id: "a", curve }], { flow: x, head: 10 }), 0.01, [0, -1]]],
+    joinSearchIndexes: [[(x) => E.joinSearchIndexes([E.prepareSearchIndex([{ id: "a", curve }, { id: "b", curve }])], [[x]]), 1, [-1, 0.5, 2]]],
     brent: [[(x) => E.brent((t) => t - 1, x, 2), 0, []], [(x) => E.brent((t) => t - 1, 0, 2, x), 1e-9, [-1]]],
     bisection: [[(x) => E.bisection((t) => t - 1, x, 2, 1e-9), 0, []]],
     explainRanks: [[(x) => E.explainRanks([], x, 1.1), 10, [-1, 2.5]], [(x) => E.explainRanks([], 10, x), 1.1, [0, -1]]],

@@ -1,6 +1,6 @@
 /** Tier 3 — duty-point search: correctness, agreement with affinity/trim, ranking reasons. */
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, EngineInputError, headAt, prepareSearchIndex, scaleBySpeed, scaleByTrim, searchDuty, type CurveSet } from "./index.ts";
+import { createPumpCurve, EngineInputError, headAt, joinSearchIndexes, prepareSearchIndex, scaleBySpeed, scaleByTrim, searchDuty, type CurveSet } from "./index.ts";
 import { generateCurveSets, makeCurve } from "./test/curveSets.ts";
 
 const M3H = 1 / 3600;
@@ -94,6 +94,35 @@ describe("index built from raw inputs equals index built from prepared curves", 
       expect(c.score).toBeCloseTo(prepared.candidates[i].score, 12);
     });
     expect(raw.candidates.filter((c) => Number(c.id.split("-")[1]) % 3 === 0).every((c) => c.efficiency !== null)).toBe(true);
+  });
+});
+
+describe("joined indexes search like one index prepared over the same sets", () => {
+  const gen = generateCurveSets(900, 5);
+  gen[17] = { id: "broken", curve: { points: [{ flow: 0, head: 10 }, { flow: 0, head: 9 }] } }; // rejected in its part
+  const parts = [gen.slice(0, 300), gen.slice(300, 650), gen.slice(650)].map((p) => prepareSearchIndex(p));
+  const d = { flow: 100 * M3H, head: 40 };
+  const strip = (r: ReturnType<typeof searchDuty>) => JSON.stringify(r);
+  it("every set of every part: the same candidates, figures, reasons and counts as one index", () => {
+    const whole = searchDuty(prepareSearchIndex(gen), d, { limit: 1000 });
+    const joined = joinSearchIndexes(parts);
+    expect(joined.count).toBe(899);
+    expect(joined.rejected.map((r) => r.id)).toEqual(["broken"]);
+    expect(whole.candidates.length).toBeGreaterThan(10);
+    expect(strip(searchDuty(joined, d, { limit: 1000 }))).toBe(strip(whole));
+  });
+  it("picked sets (some parts filtered, one empty) search like those sets prepared on their own", () => {
+    const keep = (i: number) => i % 3 !== 1;
+    const picks = parts.map((p, k) => (k === 1 ? [] : p.ids.flatMap((id, j) => (keep(Number(id.split("-")[1])) ? [j] : []))));
+    const chosen = gen.filter((s, i) => i < 300 || i >= 650 ? s.id !== "broken" && keep(Number(s.id.split("-")[1])) : false);
+    const joined = joinSearchIndexes(parts, picks);
+    expect(joined.count).toBe(chosen.length);
+    expect(joined.rejected).toEqual([]);
+    expect(strip(searchDuty(joined, d, { limit: 1000, methods: ["speed", "direct"] }))).toBe(strip(searchDuty(prepareSearchIndex(chosen), d, { limit: 1000, methods: ["speed", "direct"] })));
+  });
+  it("a position outside a part is a typed error naming it", () => {
+    expect(() => joinSearchIndexes(parts, [[300]])).toThrow(/picks\[0\]\[0\]/);
+    expect(() => joinSearchIndexes([{ count: 1 } as never])).toThrow(EngineInputError);
   });
 });
 

@@ -1,8 +1,8 @@
 /**
  * Duty-point search over many curve sets.
  *
- * 1. `prepareSearchIndex` validates and interpolates every curve set once and keeps an
- *    envelope (flow range, largest head) per set.
+ * 1. `prepareSearchIndex` (searchIndex.ts) validates and interpolates every curve set once and
+ *    keeps an envelope (flow range, largest head) per set.
  * 2. `searchDuty` rejects by envelope first (duty flow beyond the largest reachable flow, or
  *    duty head above the largest reachable head), then evaluates H(Q_duty) and decides:
  *    `direct` when the curve passes within [H_d, H_d·(1 + headTolerance)] at the duty flow;
@@ -12,209 +12,16 @@
  * 3. Candidates are ranked by a score built from efficiency at duty (constant-efficiency
  *    assumption for trim/speed), distance from BEP flow, NPSH margin and shaft power; each
  *    gets a reason stating its figures and how it compares with the row above it
- *    (`explainRanks`, also used by the app after it filters and merges rows).
+ *    (`explainRanks` in searchExplain.ts, also used by the app after it filters and merges rows).
  */
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
-import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
-import { qt } from "./quantityText.ts";
+import { evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
+import { explainRanks } from "./searchExplain.ts";
 
-/** A curve set to search: one pump model at one speed and impeller diameter. */
-export interface CurveSet {
-  /** Id returned with the candidate (e.g. the database id). */
-  id: string;
-  /** Display label (model, speed, diameter). */
-  label?: string;
-  curve: PumpCurve | PumpCurveInput;
-}
-
-/** Curves of one column for all sets, packed end to end (knots x, values y, tangents m). */
-interface Packed {
-  /** Set i's knots are [off[i], off[i+1]); an empty range means the set lacks this column. */
-  off: Int32Array;
-  x: Float64Array;
-  y: Float64Array;
-  m: Float64Array;
-}
-
-/**
- * Prepared index (reuse it across searches). Curves are packed into a few typed arrays so a
- * large library costs little memory and garbage collection; the per-set scalars below use −1
- * for "not given".
- */
-export interface SearchIndex {
-  count: number;
-  ids: string[];
-  labels: string[];
-  /** m³/s */
-  flowMin: Float64Array;
-  /** m³/s */
-  flowMax: Float64Array;
-  /** m */
-  headMax: Float64Array;
-  /** m³/s, −1 without BEP */
-  bepFlow: Float64Array;
-  /** rpm, −1 if not given */
-  speed: Float64Array;
-  /** m, −1 if not given */
-  diameter: Float64Array;
-  /** m, −1 if not given */
-  minDiameter: Float64Array;
-  drooping: Uint8Array;
-  head: Packed;
-  /** Efficiency (given, or derived from power at the power column's points). */
-  eff: Packed;
-  npshr: Packed;
-  /** Sets that failed validation, with the reason. */
-  rejected: { id: string; reason: string }[];
-}
-
-/** Growable Float64Array (doubling), to pack many small curves without per-curve objects. */
-class DoubleBuffer {
-  buf = new Float64Array(1024);
-  length = 0;
-  push(v: number) {
-    if (this.length === this.buf.length) {
-      const next = new Float64Array(this.buf.length * 2);
-      next.set(this.buf);
-      this.buf = next;
-    }
-    this.buf[this.length++] = v;
-  }
-  done(): Float64Array {
-    return this.buf.slice(0, this.length);
-  }
-}
-
-class PackBuilder {
-  off: number[] = [0];
-  x = new DoubleBuffer();
-  y = new DoubleBuffer();
-  m = new DoubleBuffer();
-  add(c: MonotoneCubic | null) {
-    if (c) for (let k = 0; k < c.x.length; k++) { this.x.push(c.x[k]); this.y.push(c.y[k]); this.m.push(c.m[k]); }
-    this.off.push(this.x.length);
-  }
-  /** Start of a curve whose knots are pushed next. */
-  begin(): number { return this.x.length; }
-  push(x: number, y: number) { this.x.push(x); this.y.push(y); this.m.push(0); }
-  /** Ends the curve started at `start`: Fritsch-Carlson tangents in place (fewer than 2 knots: no curve). */
-  end(start: number) {
-    const n = this.x.length - start;
-    if (n < 2) { this.x.length = start; this.y.length = start; this.m.length = start; }
-    else fritschCarlsonTangents(this.x.buf, this.y.buf, this.m.buf, start, n);
-    this.off.push(this.x.length);
-  }
-  build(): Packed {
-    return { off: Int32Array.from(this.off), x: this.x.done(), y: this.y.done(), m: this.m.done() };
-  }
-}
-
-/** Monotone cubic (Fritsch-Carlson, see interp.ts) of set i in a packed column; null outside or absent. */
-function evalPacked(p: Packed, i: number, t: number): number | null {
-  const lo = p.off[i];
-  const hi = p.off[i + 1] - 1;
-  if (hi < lo) return null;
-  const x = p.x;
-  if (!(t >= x[lo] && t <= x[hi])) return null;
-  if (hi === lo) return p.y[lo];
-  return hermiteIn(x, p.y, p.m, lo, hi, t);
-}
-
-/** Efficiency cubic from the power column when the curve gives no efficiency (η = ρ·g₀·Q·H/P at its points). */
-function derivedEfficiency(c: PumpCurve): MonotoneCubic | null {
-  if (c.efficiency) return c.efficiency;
-  if (!c.power) return null;
-  const xs: number[] = [], ys: number[] = [];
-  for (let k = 0; k < c.power.x.length; k++) {
-    const q = c.power.x[k];
-    const h = evalCubic(c.head, q);
-    if (h === null) continue;
-    xs.push(q);
-    ys.push((c.powerDensity * G0 * q * h) / c.power.y[k]);
-  }
-  return xs.length >= 2 ? monotoneCubic(xs, ys) : null;
-}
-
-/**
- * Prepares curve sets for searching. Invalid sets are listed in `rejected`, not thrown.
- * @param sets curve sets (SI curves)
- */
-export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
-  if (!Array.isArray(sets)) throw new EngineInputError("sets", "must be an array of curve sets");
-  const ids: string[] = [], labels: string[] = [];
-  const flowMin: number[] = [], flowMax: number[] = [], headMax: number[] = [], bepFlow: number[] = [];
-  const speed: number[] = [], diameter: number[] = [], minDiameter: number[] = [], drooping: number[] = [];
-  const head = new PackBuilder(), eff = new PackBuilder(), npshr = new PackBuilder();
-  const rejected: { id: string; reason: string }[] = [];
-  const optional = (name: string, v: number | undefined) => (v === undefined || v === null ? -1 : requirePositive(name, v));
-  for (const s of sets) {
-    const curve = s?.curve;
-    if (curve && "head" in curve && (curve as PumpCurve).head && "x" in (curve as PumpCurve).head) {
-      // Already prepared: copy its columns.
-      const c = curve as PumpCurve;
-      ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
-      flowMin.push(c.flowMin); flowMax.push(c.flowMax); headMax.push(c.headMax); bepFlow.push(c.bep ? c.bep.flow : -1);
-      speed.push(c.speed ?? -1); diameter.push(c.impellerDiameter ?? -1); minDiameter.push(c.minDiameter ?? -1);
-      drooping.push(c.drooping ? 1 : 0);
-      head.add(c.head); eff.add(derivedEfficiency(c)); npshr.add(c.npshr);
-      continue;
-    }
-    // Raw input: the same checks as createPumpCurve, packed straight into the index (no
-    // per-curve objects, so a large library loads quickly and costs little memory).
-    let v: { headMax: number; drooping: boolean };
-    let sp: number, dia: number, dMin: number, dMax: number, rhoP: number;
-    const input = curve as PumpCurveInput;
-    try {
-      if (!input || typeof input !== "object") throw new EngineInputError("curve", "is required");
-      const tol = input.riseTolerance ?? 0.1;
-      if (!(tol >= 0 && tol <= 1)) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
-      v = checkPumpPoints(input.points, tol);
-      sp = optional("speed", input.speed); dia = optional("impellerDiameter", input.impellerDiameter);
-      dMin = optional("minDiameter", input.minDiameter); dMax = optional("maxDiameter", input.maxDiameter);
-      if (dMin > 0 && dMax > 0 && dMin > dMax) throw new EngineInputError("minDiameter", "must not exceed maxDiameter");
-      rhoP = requirePositive("powerDensity", input.powerDensity ?? 1000);
-    } catch (e) {
-      rejected.push({ id: String(s?.id), reason: e instanceof Error ? e.message : String(e) });
-      continue;
-    }
-    const pts = input.points;
-    ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
-    flowMin.push(pts[0].flow); flowMax.push(pts[pts.length - 1].flow); headMax.push(v.headMax);
-    speed.push(sp); diameter.push(dia); minDiameter.push(dMin); drooping.push(v.drooping ? 1 : 0);
-    let st = head.begin();
-    for (const p of pts) head.push(p.flow, p.head);
-    head.end(st);
-    // Efficiency column, or efficiency derived from power at the power column's points; BEP.
-    let hasEff = 0;
-    for (const p of pts) if (p.efficiency !== undefined && p.efficiency !== null) hasEff++;
-    let best = -1, bestQ = -1;
-    st = eff.begin();
-    for (const p of pts) {
-      const e = hasEff >= 2
-        ? p.efficiency
-        : hasEff < 2 && p.power !== undefined && p.power !== null ? (rhoP * G0 * p.flow * p.head) / p.power : undefined;
-      if (e === undefined || e === null) continue;
-      eff.push(p.flow, e);
-      if (e > 0 && e > best) { best = e; bestQ = p.flow; }
-    }
-    eff.end(st);
-    bepFlow.push(best > 0 && bestQ > 0 ? bestQ : -1);
-    st = npshr.begin();
-    for (const p of pts) if (p.npshr !== undefined && p.npshr !== null) npshr.push(p.flow, p.npshr);
-    npshr.end(st);
-  }
-  return {
-    count: ids.length, ids, labels,
-    flowMin: Float64Array.from(flowMin), flowMax: Float64Array.from(flowMax), headMax: Float64Array.from(headMax),
-    bepFlow: Float64Array.from(bepFlow), speed: Float64Array.from(speed), diameter: Float64Array.from(diameter),
-    minDiameter: Float64Array.from(minDiameter), drooping: Uint8Array.from(drooping),
-    head: head.build(), eff: eff.build(), npshr: npshr.build(), rejected,
-  };
-}
+export type { CurveSet, SearchIndex } from "./searchIndex.ts";
 
 /** Search options. Ratios and tolerances are dimensionless fractions. */
 export interface SearchOptions {
@@ -275,8 +82,6 @@ export interface SearchResult {
   /** Counts: sets searched, rejected by envelope, evaluated, that met the duty. */
   stats: { searched: number; rejectedByEnvelope: number; evaluated: number; matched: number };
 }
-
-const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 
 /**
  * Finds the curve sets that meet a duty, directly or by trim/speed, ranked.
@@ -396,65 +201,6 @@ export function searchDuty(
   });
   explainRanks(top, matched, reqMargin);
   return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched } });
-}
-
-/** What a row is, in words (how it meets the duty and its figures). */
-function describe(c: Candidate, reqMargin: number): string {
-  const parts: string[] = [];
-  parts.push(c.method === "direct" ? `reaches the duty point as published (${qt("head", c.headAtDuty)} at duty flow)`
-    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
-    : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
-  parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
-  if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
-  if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
-  if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
-  return parts.join("; ");
-}
-
-/** How row b (ranked below) compares with row a (the row above), in words. */
-function compareWithAbove(a: Candidate, b: Candidate): string {
-  const diffs: string[] = [];
-  if (a.efficiency !== null && b.efficiency !== null) {
-    const d = (a.efficiency - b.efficiency) * 100;
-    if (Math.abs(d) >= 0.05) diffs.push(`${Math.abs(d).toFixed(1)} points ${d > 0 ? "less" : "more"} efficient`);
-  } else if (a.efficiency !== null && b.efficiency === null) diffs.push("no efficiency data where it has some");
-  if (a.bepRatio !== null && b.bepRatio !== null) {
-    const da = Math.abs(a.bepRatio - 1), db = Math.abs(b.bepRatio - 1);
-    if (Math.abs(da - db) >= 0.005) diffs.push(`${db > da ? "further from" : "nearer"} BEP (${Math.round(b.bepRatio * 100)} % against ${Math.round(a.bepRatio * 100)} %)`);
-  }
-  if (a.shaftPower !== null && b.shaftPower !== null) {
-    const d = b.shaftPower - a.shaftPower;
-    if (Math.abs(d) >= 5) diffs.push(`${qt("power", Math.abs(d))} ${d > 0 ? "more" : "less"} shaft power`);
-  }
-  if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
-    diffs.push(`NPSH margin ${b.npshMargin.toFixed(2)} against ${a.npshMargin.toFixed(2)}`);
-  }
-  const score = a.score - b.score;
-  return diffs.length
-    ? `below #${a.rank} because: ${diffs.join(", ")} (score ${b.score.toFixed(3)} against ${score >= 0 ? "" : "only "}${a.score.toFixed(3)})`
-    : `below #${a.rank} on score ${b.score.toFixed(3)} against ${a.score.toFixed(3)} (figures alike)`;
-}
-
-/**
- * Numbers the rows 1…n in their order and writes each one's reason: what it is, and how it
- * compares with the row above it (the first row: why it leads). Rows must already be sorted.
- * @param rows ranked candidates (SI figures; rank and reason are rewritten)
- * @param total how many met the duty in all (count)
- * @param reqMargin required NPSH margin ratio (dimensionless)
- * @param notes per row, a comparison with the row above that replaces the score comparison (unitless text; null: compare figures)
- */
-export function explainRanks(rows: Candidate[], total: number, reqMargin: number, notes: readonly (string | null)[] = []): Candidate[] {
-  if (!Array.isArray(rows)) throw new EngineInputError("rows", "must be an array of ranked candidates");
-  if (!Number.isInteger(requireNonNegative("total", total)) || total < rows.length) throw new EngineInputError("total", "must be a whole count, at least the number of rows");
-  requirePositive("reqMargin", reqMargin);
-  rows.forEach((c, i) => {
-    c.rank = i + 1;
-    const what = describe(c, reqMargin);
-    c.reason = i === 0
-      ? `#1 of ${total}: ${what}; highest score ${c.score.toFixed(3)} (efficiency less penalties for distance from BEP, thin NPSH margin and extra power)`
-      : `#${c.rank} of ${total}: ${what}; ${notes[i] ?? compareWithAbove(rows[i - 1], c)}`;
-  });
-  return rows;
 }
 
 /** Ratio s in [lo, hi] with s²·H(Qd/s^k) = Hd (largest root if several); null if none. */

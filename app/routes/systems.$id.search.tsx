@@ -47,8 +47,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     allowBeyondCatalogue: query.beyond,
   };
   const viewer = viewerOf(m);
-  const res = await searchForSystem(viewer, id, filters);
-  const current = await listCandidates(viewer, id);
+  const [res, current] = await Promise.all([searchForSystem(viewer, id, filters), listCandidates(viewer, id)]);
   return renderDeep({ // quantities in messages, reasons and "why this rank" in the user's units
     id,
     name: res.system.name,

@@ -14,7 +14,8 @@ import type { Viewer } from "../auth/viewer.server";
 import { accessTo } from "./plans";
 import { UploadRejected } from "./uploads.server";
 
-export async function listLibraries(viewer: Viewer) {
+/** The libraries `viewer` may see, with their access (one query; shared by the listing and the search). */
+async function visibleLibraries(viewer: Viewer) {
   const rows = await db()
     .select({
       lib: libraries,
@@ -30,24 +31,27 @@ export async function listLibraries(viewer: Viewer) {
     .leftJoin(libraryRevisions, eq(libraryRevisions.id, libraries.currentRevisionId))
     .where(and(or(eq(libraries.workspaceId, viewer.workspace.id), eq(libraries.visibility, "shared")), isNull(libraries.archivedAt)))
     .orderBy(asc(libraries.name));
-  const out = [];
-  for (const r of rows) {
+  return rows.flatMap((r) => {
     const access = accessTo(viewer, r.lib);
-    if (!access) continue;
-    out.push({
-      id: r.lib.id,
-      name: r.lib.name,
-      description: r.lib.description,
-      visibility: r.lib.visibility,
-      owner: r.ownerName,
-      access,
-      revision: r.revisionNumber ?? null,
-      modelCount: r.modelCount ?? 0,
-      curveCount: r.curveCount ?? 0,
-      importedAt: r.importedAt?.toISOString() ?? null,
-    });
-  }
-  return out;
+    return access ? [{ ...r, access }] : [];
+  });
+}
+
+const listItem = (r: Awaited<ReturnType<typeof visibleLibraries>>[number]) => ({
+  id: r.lib.id,
+  name: r.lib.name,
+  description: r.lib.description,
+  visibility: r.lib.visibility,
+  owner: r.ownerName,
+  access: r.access,
+  revision: r.revisionNumber ?? null,
+  modelCount: r.modelCount ?? 0,
+  curveCount: r.curveCount ?? 0,
+  importedAt: r.importedAt?.toISOString() ?? null,
+});
+
+export async function listLibraries(viewer: Viewer) {
+  return (await visibleLibraries(viewer)).map(listItem);
 }
 
 /** The library if `viewer` may see it at all; 404 otherwise (never says whether it exists). */
@@ -242,17 +246,12 @@ async function loadCurves(revisionIds: number[], curveSetIds?: number[]): Promis
 
 /** Libraries whose curves `viewer` may search: own (as allowed) and shared ones the plan opens. */
 export async function searchableRevisions(viewer: Viewer) {
-  const list = await listLibraries(viewer);
-  const open = list.filter((l) => l.access !== "locked");
-  const rows = open.length
-    ? await db()
-        .select({ id: libraries.id, name: libraries.name, currentRevisionId: libraries.currentRevisionId })
-        .from(libraries)
-        .where(inArray(libraries.id, open.map((l) => l.id)))
-    : [];
+  const list = await visibleLibraries(viewer);
+  const open = list.filter((r) => r.access !== "locked" && r.lib.currentRevisionId != null).sort((a, b) => a.lib.id - b.lib.id);
   return {
-    open: rows.filter((r) => r.currentRevisionId != null).map((r) => ({ libraryId: r.id, name: r.name, revisionId: r.currentRevisionId! })),
-    locked: list.filter((l) => l.access === "locked"),
+    // own: the viewer's workspace's library (search prefers it when two libraries carry the same curve).
+    open: open.map((r) => ({ libraryId: r.lib.id, name: r.lib.name, revisionId: r.lib.currentRevisionId!, own: r.access === "owner" })),
+    locked: list.filter((r) => r.access === "locked").map(listItem),
   };
 }
 

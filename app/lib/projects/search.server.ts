@@ -1,17 +1,20 @@
 // Duty-point search of a system over every curve set open to the viewer.
 //
-// Speed at catalogue scale: library revisions never change once written, so the engine's prepared
-// search index over a given list of revisions (and filter) is built once per app process and kept
-// (a small LRU). Each request then only runs `searchDuty`, groups the best rows, judges at most
-// SEARCH_EVALUATED of them and serialises the SEARCH_SHOWN it shows. A new revision is a new key,
-// so an import is seen at once; any other process builds the same index from the database.
-import { eq } from "drizzle-orm";
-import { db } from "@db/client.server";
-import { libraries } from "@db/schema";
-import { explainRanks, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type CurveSet as EngineCurveSet, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
-import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, toPumpPoints, type Adjustment, type SystemInput } from "./hydraulics";
+// Speed at catalogue scale: library revisions never change once written, so each revision's curve
+// sets and the engine's prepared index over them are read and built once per app process and kept
+// compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
+// filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
+// `searchDuty`, groups the best rows, judges at most SEARCH_EVALUATED of them (verdicts kept per
+// system input) and returns the SEARCH_SHOWN it shows. A new revision, a saved input or a plan that
+// opens or closes libraries is a new key, so it is seen at once; any other process builds the same.
+import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
+import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
+import { WeightedLru } from "./lru";
+import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
+
+export { toEngineSet } from "./revision-curves.server";
 
 export type SearchFilters = {
   type?: string;
@@ -27,67 +30,75 @@ export type SearchFilters = {
 export const SEARCH_EVALUATED = 80;
 export const SEARCH_SHOWN = 50;
 
-type OpenRevision = { libraryId: number; name: string; revisionId: number };
+type OpenRevision = { libraryId: number; name: string; revisionId: number; own?: boolean };
 /** A curve set with the revision it came from (library name read per request: names may change, revisions do not). */
 type IndexedSet = LibraryCurveSet & { revisionId: number; libraryId: number };
-
-/** The engine's view of a stored curve set (the same for the cached and the uncached path). */
-export function toEngineSet(s: LibraryCurveSet): EngineCurveSet {
-  return {
-    id: String(s.id),
-    label: s.model,
-    curve: { points: toPumpPoints(s.points), speed: s.speed ?? undefined, impellerDiameter: s.impellerDiameter ?? undefined, riseTolerance: 1 },
-  };
-}
 
 /** The filters that choose which sets are indexed (the others act on the ranked rows). */
 function setFilter(filters: SearchFilters) {
   const type = filters.type?.toLowerCase();
   const size = filters.size?.toLowerCase();
   const speed = filters.speed;
-  return (s: LibraryCurveSet) =>
-    (!type || s.type.toLowerCase().includes(type)) &&
-    (!size || s.nominalSize.toLowerCase().includes(size)) &&
-    (!speed || (s.speed != null && Math.abs(s.speed - speed) / speed < 0.1));
+  return (setType: string, setSize: string, setSpeed: number | null) =>
+    (!type || setType.toLowerCase().includes(type)) &&
+    (!size || setSize.toLowerCase().includes(size)) &&
+    (!speed || (setSpeed != null && Math.abs(setSpeed - speed) / speed < 0.1));
 }
 
 export type PreparedSearch = {
-  sets: IndexedSet[];
-  byId: Map<string, IndexedSet>;
   index: SearchIndex;
+  /** The curve set behind a row's id, with its revision and library. */
+  setOf: (id: string) => IndexedSet;
   /** curveKey per set id, filled as rows are grouped. */
   keys: Map<string, string>;
 };
 
-/** Builds the index over the open revisions' curve sets (the uncached path; also what the cache stores). */
+/** Builds the index afresh from the open revisions' curve sets as `curvesOfRevisions` gives them (the reference path: tests compare). */
 export async function buildPreparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
   const keep = setFilter(filters);
   const sets: IndexedSet[] = [];
-  for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) if (keep(s)) sets.push({ ...s, revisionId: o.revisionId, libraryId: o.libraryId });
-  return { sets, byId: new Map(sets.map((s) => [String(s.id), s])), index: prepareSearchIndex(sets.map(toEngineSet)), keys: new Map() };
+  for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) if (keep(s.type, s.nominalSize, s.speed)) sets.push({ ...s, revisionId: o.revisionId, libraryId: o.libraryId });
+  const byId = new Map(sets.map((s) => [String(s.id), s]));
+  return { index: prepareSearchIndex(sets.map(toEngineSet)), setOf: (id) => byId.get(id)!, keys: new Map() };
 }
 
-/** Prepared indexes per (revisions, set filters): immutable inputs, so never stale; least recently used dropped first. */
-const PREPARED_LIMIT = 8;
-const preparedCache = new Map<string, Promise<PreparedSearch>>();
+/** Joins the kept revisions' indexes (filtered by type, size and speed); sets are made back into objects only for the rows used. */
+async function joinPreparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
+  const parts = await Promise.all(open.map((o) => revisionCurves(o.revisionId)));
+  const keep = setFilter(filters);
+  const all = !filters.type && !filters.size && !filters.speed;
+  const picks = parts.map((r) => {
+    if (all) return null;
+    const out: number[] = [];
+    for (let j = 0; j < r.index.count; j++) {
+      const i = r.indexed[j];
+      if (keep(r.type[i], r.nominalSize[i], Number.isNaN(r.speed[i]) ? null : r.speed[i])) out.push(j);
+    }
+    return out;
+  });
+  const index = parts.length === 1 && all ? parts[0].index : joinSearchIndexes(parts.map((r) => r.index), picks);
+  const made = new Map<string, IndexedSet>();
+  const setOf = (id: string) => {
+    let s = made.get(id);
+    if (s) return s;
+    const n = Number(id);
+    const k = parts.findIndex((r) => r.position.has(n));
+    s = { ...curveSetAt(parts[k], parts[k].position.get(n)!), revisionId: open[k].revisionId, libraryId: open[k].libraryId };
+    made.set(id, s);
+    return s;
+  };
+  return { index, setOf, keys: new Map() };
+}
+
+/** Prepared searches per (revisions, set filters): immutable inputs, so never stale; least recently used dropped first past 400 000 sets or 8 lists. */
+const preparedCache = new WeightedLru<PreparedSearch>(400_000, 8, (p) => p.index.count);
 
 export function preparedKey(open: readonly OpenRevision[], filters: SearchFilters): string {
   return JSON.stringify([open.map((o) => o.revisionId), filters.type?.toLowerCase() ?? "", filters.size?.toLowerCase() ?? "", filters.speed ?? 0]);
 }
 
-export async function preparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
-  const key = preparedKey(open, filters);
-  let p = preparedCache.get(key);
-  if (p) {
-    preparedCache.delete(key);
-    preparedCache.set(key, p);
-    return p;
-  }
-  p = buildPreparedSearch(open, filters);
-  p.catch(() => preparedCache.delete(key));
-  preparedCache.set(key, p);
-  while (preparedCache.size > PREPARED_LIMIT) preparedCache.delete(preparedCache.keys().next().value!);
-  return p;
+export function preparedSearch(open: readonly OpenRevision[], filters: SearchFilters): Promise<PreparedSearch> {
+  return preparedCache.get(preparedKey(open, filters), () => joinPreparedSearch(open, filters));
 }
 
 /**
@@ -107,8 +118,8 @@ function verdictsFor(inputJson: string): Map<string, Verdict | null> {
 }
 
 /** For tests: how many prepared indexes this process keeps, and a way to drop every cache. */
-export const preparedCacheStats = () => ({ size: preparedCache.size, keys: [...preparedCache.keys()] });
-export const clearSearchCaches = () => { preparedCache.clear(); verdictCache.clear(); };
+export const preparedCacheStats = () => ({ size: preparedCache.size, keys: preparedCache.keys() });
+export const clearSearchCaches = () => { preparedCache.clear(); verdictCache.clear(); clearKeptRevisions(); };
 
 /** The engine options the page searches with (shared with the benchmark, so both time the same search). */
 export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>, filters: SearchFilters): SearchOptions {
@@ -134,11 +145,10 @@ function curveKey(s: LibraryCurveSet): string {
  * Every curve set open to the viewer, ranked against the system's duty (locked libraries listed,
  * never searched). One row per distinct curve (the libraries that carry it named); each row has
  * the verdict of the pump as offered on the system's band; outside-catalogue rows only on request.
- * `opts.uncached` builds the index afresh (tests compare both paths).
+ * `opts.uncached` builds the index afresh from `curvesOfRevisions` with no kept verdicts (tests compare both paths).
  */
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean } = {}) {
-  const system = await getSystem(viewer, systemId);
-  const { open, locked } = await searchableRevisions(viewer);
+  const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
   let evaluation: ReturnType<typeof evaluateSystem>;
   try {
@@ -150,13 +160,14 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   }
   const prepared = opts.uncached ? await buildPreparedSearch(open, filters) : await preparedSearch(open, filters);
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
+  const own = new Set(open.filter((o) => o.own).map((o) => o.libraryId));
   const res = searchDuty(prepared.index, { flow: system.input.duty.flow, head: system.input.duty.head }, searchOptionsFor(system.input, evaluation, filters));
   // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
   const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
   let duplicates = 0;
   for (const c of res.candidates) {
     if (filters.maxPowerW && c.shaftPower != null && c.shaftPower > filters.maxPowerW) continue;
-    const s = prepared.byId.get(c.id)!;
+    const s = prepared.setOf(c.id);
     let key = prepared.keys.get(c.id);
     if (key === undefined) prepared.keys.set(c.id, (key = curveKey(s)));
     const lib = libraryName.get(s.revisionId) ?? "";
@@ -167,8 +178,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     }
     duplicates++;
     if (!g.libraries.includes(lib)) g.libraries.push(lib);
-    const mine = (x: IndexedSet) => libraryOwnedBy(x.libraryId, viewer);
-    if (Math.abs(c.score - g.row.score) < 1e-12 && (await mine(s)) && !(await mine(g.set))) { g.row = c; g.set = s; }
+    if (Math.abs(c.score - g.row.score) < 1e-12 && own.has(s.libraryId) && !own.has(g.set.libraryId)) { g.row = c; g.set = s; }
   }
   // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
   let outsideCatalogue = 0;
@@ -207,6 +217,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const results = shown.map(({ set: s, libraries, verdict }, i) => ({
     ...rows[i],
     curveSetId: s.id,
+    modelId: s.modelId,
     model: s.model,
     type: s.type,
     size: s.nominalSize,
@@ -221,14 +232,3 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
 
 const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
 const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
-
-const ownLibraryCache = new WeakMap<Viewer, Map<number, boolean>>();
-async function libraryOwnedBy(libraryId: number, viewer: Viewer): Promise<boolean> {
-  let m = ownLibraryCache.get(viewer);
-  if (!m) ownLibraryCache.set(viewer, (m = new Map()));
-  if (!m.has(libraryId)) {
-    const [row] = await db().select({ ws: libraries.workspaceId }).from(libraries).where(eq(libraries.id, libraryId));
-    m.set(libraryId, row?.ws === viewer.workspace.id);
-  }
-  return m.get(libraryId)!;
-}

@@ -23,19 +23,14 @@ export async function systemReadView(viewer: Viewer, systemId: number) {
 
 /** { system, duty, results } — the duty-point search against the stored duty, one row per result. */
 export async function systemSearchView(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
+  // Each result carries its model id and library: nothing here reads the catalogue again.
   const res = await searchForSystem(viewer, systemId, filters);
-  // Model id and library of each curve set (cached revisions); used when a result does not carry them.
-  const meta = new Map<number, { modelId: number; library: string }>();
-  if (res.results.length) {
-    const { open } = await searchableRevisions(viewer);
-    for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) meta.set(s.id, { modelId: s.modelId, library: o.name });
-  }
   return {
     units: SI_UNITS,
     system: { id: res.system.id, name: res.system.name, projectId: res.system.projectId, projectName: res.system.projectName },
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
-    results: res.results.map((r) => searchResultView(r as SearchResultIn, meta.get(r.curveSetId))),
+    results: res.results.map((r) => searchResultView(r as SearchResultIn)),
   };
 }

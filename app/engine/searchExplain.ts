@@ -1,0 +1,69 @@
+/**
+ * Reasons of the duty-point search's ranked rows (search.ts): what each row is, in words, and
+ * how it compares with the row above it.
+ */
+import { EngineInputError, requirePositive, requireNonNegative } from "./errors.ts";
+import type { Candidate } from "./search.ts";
+import { qt } from "./quantityText.ts";
+
+const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+
+/** What a row is, in words (how it meets the duty and its figures). */
+function describe(c: Candidate, reqMargin: number): string {
+  const parts: string[] = [];
+  parts.push(c.method === "direct" ? `reaches the duty point as published (${qt("head", c.headAtDuty)} at duty flow)`
+    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
+    : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
+  parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
+  if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
+  if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
+  if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
+  return parts.join("; ");
+}
+
+/** How row b (ranked below) compares with row a (the row above), in words. */
+function compareWithAbove(a: Candidate, b: Candidate): string {
+  const diffs: string[] = [];
+  if (a.efficiency !== null && b.efficiency !== null) {
+    const d = (a.efficiency - b.efficiency) * 100;
+    if (Math.abs(d) >= 0.05) diffs.push(`${Math.abs(d).toFixed(1)} points ${d > 0 ? "less" : "more"} efficient`);
+  } else if (a.efficiency !== null && b.efficiency === null) diffs.push("no efficiency data where it has some");
+  if (a.bepRatio !== null && b.bepRatio !== null) {
+    const da = Math.abs(a.bepRatio - 1), db = Math.abs(b.bepRatio - 1);
+    if (Math.abs(da - db) >= 0.005) diffs.push(`${db > da ? "further from" : "nearer"} BEP (${Math.round(b.bepRatio * 100)} % against ${Math.round(a.bepRatio * 100)} %)`);
+  }
+  if (a.shaftPower !== null && b.shaftPower !== null) {
+    const d = b.shaftPower - a.shaftPower;
+    if (Math.abs(d) >= 5) diffs.push(`${qt("power", Math.abs(d))} ${d > 0 ? "more" : "less"} shaft power`);
+  }
+  if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
+    diffs.push(`NPSH margin ${b.npshMargin.toFixed(2)} against ${a.npshMargin.toFixed(2)}`);
+  }
+  const score = a.score - b.score;
+  return diffs.length
+    ? `below #${a.rank} because: ${diffs.join(", ")} (score ${b.score.toFixed(3)} against ${score >= 0 ? "" : "only "}${a.score.toFixed(3)})`
+    : `below #${a.rank} on score ${b.score.toFixed(3)} against ${a.score.toFixed(3)} (figures alike)`;
+}
+
+/**
+ * Numbers the rows 1…n in their order and writes each one's reason: what it is, and how it
+ * compares with the row above it (the first row: why it leads). Rows must already be sorted.
+ * @param rows ranked candidates (SI figures; rank and reason are rewritten)
+ * @param total how many met the duty in all (count)
+ * @param reqMargin required NPSH margin ratio (dimensionless)
+ * @param notes per row, a comparison with the row above that replaces the score comparison (unitless text; null: compare figures)
+ */
+export function explainRanks(rows: Candidate[], total: number, reqMargin: number, notes: readonly (string | null)[] = []): Candidate[] {
+  if (!Array.isArray(rows)) throw new EngineInputError("rows", "must be an array of ranked candidates");
+  if (!Number.isInteger(requireNonNegative("total", total)) || total < rows.length) throw new EngineInputError("total", "must be a whole count, at least the number of rows");
+  requirePositive("reqMargin", reqMargin);
+  rows.forEach((c, i) => {
+    c.rank = i + 1;
+    const what = describe(c, reqMargin);
+    c.reason = i === 0
+      ? `#1 of ${total}: ${what}; highest score ${c.score.toFixed(3)} (efficiency less penalties for distance from BEP, thin NPSH margin and extra power)`
+      : `#${c.rank} of ${total}: ${what}; ${notes[i] ?? compareWithAbove(rows[i - 1], c)}`;
+  });
+  return rows;
+}
+
