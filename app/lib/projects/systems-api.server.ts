@@ -1,7 +1,7 @@
 // Read API for systems: the workbench view (as the live preview) and the duty-point search, for
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
 // services it calls (getSystem → 404 for another workspace's system).
-import { curvesOfRevisions, searchableRevisions, type Viewer } from "../libraries";
+import type { Viewer } from "../libraries";
 import { systemWorkbench } from "./projects.server";
 import { searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchView } from "./workbench-view";
