@@ -4,6 +4,7 @@
 // per point: flow, head, efficiency, power, npshr; NaN when absent), curve sets as typed arrays, one
 // entry per model; it crosses to the main thread by transfer, not by copying 100 000 objects.
 import { curveNameOfKey, type CurveSet, type Mapping } from "../import";
+import { packedOf, POINT_WIDTH, PointStore } from "../import/packed";
 import type { StoredAnalysis } from "../upload-analysis";
 
 export type PlannedModel = {
@@ -53,10 +54,49 @@ export function writable(c: Pick<CurveSet, "model" | "points">): boolean {
   return true;
 }
 
+/** writable() on curve set `s` of a point store (POINT_WIDTH doubles per point, NaN when absent). */
+function writableInStore(store: PointStore, s: number): boolean {
+  const a = store.starts[s], b = store.end(s);
+  if (!store.sets[s].model.trim() || b - a < 3) return false;
+  const v = store.values;
+  let prev = -Infinity;
+  for (let k = a; k < b; k++) {
+    const o = k * POINT_WIDTH;
+    const flow = v[o], head = v[o + 1], eff = v[o + 2], power = v[o + 3], npshr = v[o + 4];
+    if (!(Number.isFinite(flow) && flow >= 0 && flow > prev && Number.isFinite(head) && head >= 0)) return false;
+    if (eff === eff && !(Number.isFinite(eff) && eff >= 0 && eff <= 1)) return false;
+    if ((power === power && !(Number.isFinite(power) && power >= 0)) || (npshr === npshr && !(Number.isFinite(npshr) && npshr >= 0))) return false;
+    prev = flow;
+  }
+  return true;
+}
+
+/** The ok and writable curve sets of a full-path result in a point store (the fast path's results come with one). */
+function storeOfGood(curveSets: CurveSet[]): PointStore {
+  const ok = curveSets.filter((c) => c.ok && writable(c));
+  const store = new PointStore(ok.reduce((n, c) => n + c.points.length, 0));
+  for (const c of ok) {
+    store.open(c);
+    for (const p of c.points) {
+      const o = store.next() * POINT_WIDTH;
+      store.values[o] = p.flow;
+      store.values[o + 1] = p.head;
+      store.values[o + 2] = p.efficiency ?? NaN;
+      store.values[o + 3] = p.power ?? NaN;
+      store.values[o + 4] = p.npshr ?? NaN;
+    }
+  }
+  return store;
+}
+
 /** The plan for the good curve sets of `analysis`, or null when none is good (nothing to import). */
 export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">): ImportPlan | null {
-  const all = analysis.result.curveSets;
-  const good = all.filter((c) => c.ok && writable(c));
+  // fast path: every curve set ok, its points already in typed arrays (never built as objects)
+  const packed = packedOf(analysis.result);
+  const store = packed ?? storeOfGood(analysis.result.curveSets);
+  const total = packed ? packed.sets.length : analysis.result.curveSets.length;
+  const good: number[] = [];
+  for (let s = 0; s < store.sets.length; s++) if (writableInStore(store, s)) good.push(s);
   if (good.length === 0) return null;
   const modelIndex = new Map<string, number>();
   const models: PlannedModel[] = [];
@@ -65,10 +105,13 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
   const setImpeller = new Float64Array(good.length);
   const starts = new Int32Array(good.length + 1);
   let points = 0;
-  for (const c of good) points += c.points.length;
-  const values = new Float64Array(points * 5);
+  for (const s of good) points += store.end(s) - store.starts[s];
+  // the plan's own copy (its buffer is moved to the main thread): the store's values at once when all are kept
+  const all = points === store.count;
+  const values = all ? store.values.slice(0, points * POINT_WIDTH) : new Float64Array(points * POINT_WIDTH);
   let k = 0;
-  good.forEach((c, i) => {
+  good.forEach((s, i) => {
+    const c = store.sets[s];
     let m = modelIndex.get(c.model);
     if (m === undefined) {
       m = models.length;
@@ -86,18 +129,12 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
     setSpeed[i] = c.speed ?? NaN;
     setImpeller[i] = c.impellerDiameter ?? NaN;
     starts[i] = k;
-    for (const p of c.points) {
-      const o = k * 5;
-      values[o] = p.flow;
-      values[o + 1] = p.head;
-      values[o + 2] = p.efficiency ?? NaN;
-      values[o + 3] = p.power ?? NaN;
-      values[o + 4] = p.npshr ?? NaN;
-      k++;
-    }
+    const a = store.starts[s], b = store.end(s);
+    if (!all) values.set(store.values.subarray(a * POINT_WIDTH, b * POINT_WIDTH), k * POINT_WIDTH);
+    k += b - a;
   });
   starts[good.length] = k;
-  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, starts, values, points, skipped: all.length - good.length };
+  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, starts, values, points, skipped: total - good.length };
 }
 
 /** What the API answers about an upload: the mapping used, what was read, and every problem by line and column. */
