@@ -31,7 +31,88 @@ export type ImportPlan = {
   points: number;
   /** Curve sets found but not written (flagged, or failing the write check below). */
   skipped: number;
+  /**
+   * The LOAD DATA lines of the curve sets and of the points (without the ids in front, see Lines),
+   * when the analysis worker makes them: after it has sent the plan, so while the import's
+   * transaction writes what comes before them; null when it could not. Absent: the writer formats
+   * them from the arrays itself.
+   */
+  lines?: { sets: Promise<Lines | null>; points: Promise<Lines | null> };
 };
+
+/**
+ * LOAD DATA lines as ASCII bytes without the ids that only the transaction knows, and where each line
+ * ends (lines + 1 offsets, the first 0). The writer puts the ids in front (import-write.server.ts
+ * withIds): a copy, not a number formatted, on the main thread.
+ * - curve sets: "\tspeed\timpeller\tflow_min\tflow_max\thead_max\thead_min\tpoint_count\n" (model id and revision id go in front);
+ * - points: "\tseq\tflow\thead\tefficiency\tpower\tnpshr\n" (the curve set's id goes in front); \N when absent.
+ */
+export type Lines = { bytes: Uint8Array; ends: Int32Array };
+
+/** Longest field: String() of a double has at most 24 characters ("-2.2250738585072014e-308"). */
+const MAX_FIELD = 25;
+
+/** Writes lines of numeric fields (each after a tab, \N for NaN) into bytes; `fill(line, field)` hands each line's fields to `field`. */
+function writeLines(count: number, fields: number, fill: (line: number, field: (x: number) => void) => void): Lines {
+  const ends = new Int32Array(count + 1);
+  let bytes = new Uint8Array(Math.max(1024, count * fields * 12));
+  let o = 0;
+  // the characters of each number straight into the bytes (no line strings to join and encode)
+  const field = (x: number) => {
+    bytes[o++] = 9; // tab
+    if (x === x) {
+      const text = String(x);
+      for (let j = 0; j < text.length; j++) bytes[o++] = text.charCodeAt(j);
+    } else {
+      bytes[o++] = 92; // \N: NULL
+      bytes[o++] = 78;
+    }
+  };
+  for (let k = 0; k < count; k++) {
+    if (o + fields * MAX_FIELD + 1 > bytes.length) {
+      const grown = new Uint8Array(bytes.length * 2);
+      grown.set(bytes.subarray(0, o));
+      bytes = grown;
+    }
+    fill(k, field);
+    bytes[o++] = 10; // newline
+    ends[k + 1] = o;
+  }
+  return { bytes: bytes.slice(0, o), ends };
+}
+
+/** The curve sets' lines: speed, impeller, flow range, head range (of the points as planned) and point count. */
+export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">): Lines {
+  const v = plan.values;
+  return writeLines(plan.starts.length - 1, 7, (i, field) => {
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    let lo = Infinity, hi = -Infinity;
+    for (let k = a; k < b; k++) {
+      const h = v[k * POINT_WIDTH + 1];
+      if (h < lo) lo = h;
+      if (h > hi) hi = h;
+    }
+    field(plan.setSpeed[i]);
+    field(plan.setImpeller[i]);
+    field(v[a * POINT_WIDTH]);
+    field(v[(b - 1) * POINT_WIDTH]);
+    field(hi);
+    field(lo);
+    field(b - a);
+  });
+}
+
+/** The points' lines: seq within the curve set, then the five values. */
+export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
+  const v = plan.values;
+  const starts = plan.starts;
+  let set = 0;
+  return writeLines(starts[starts.length - 1], 6, (k, field) => {
+    while (k >= starts[set + 1]) set++;
+    field(k - starts[set]);
+    for (let f = 0, at = k * POINT_WIDTH; f < POINT_WIDTH; f++) field(v[at + f]);
+  });
+}
 
 /** The typed arrays of a plan (to transfer between threads). */
 export const planBuffers = (p: ImportPlan): ArrayBuffer[] =>
