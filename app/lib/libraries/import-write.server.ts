@@ -7,9 +7,9 @@
 //
 // Progress goes to the `imports` row (import-progress.server.ts) from the pool, outside the
 // transaction, as the points are streamed: other requests see it while the import runs.
-import { asc, eq, sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { withTransaction } from "@db/client.server";
-import { curveSets, libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
+import { libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
 import { bulkLoad, bulkText, withoutKeyChecks } from "../bulk-load.server";
 import type { ImportPlan, Lines } from "./import-plan";
@@ -73,7 +73,8 @@ export async function writeImport(
         : () => setsText(plan, modelIds, revisionId);
       await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], setText, curves);
       // Curve sets come back in insertion order (ascending id within this revision).
-      const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
+      // (plain rows as arrays: 10 000 ids without an object each)
+      const setIds = ((await conn.query({ sql: "SELECT id FROM curve_sets WHERE revision_id = ? ORDER BY id", rowsAsArray: true }, [revisionId])) as [number][]).map((r) => r[0]);
       if (setIds.length !== curves) throw new Error(`import: expected ${curves} curve sets, found ${setIds.length}`);
       const lines = usable(plan.lines && (await plan.lines.points), plan.points);
       const points = lines ? () => withIds(lines, plan.starts, (i) => String(setIds[i]), POINTS_PER_PIECE, hooks.progress) : () => pointsText(plan, setIds, hooks.progress);
