@@ -35,8 +35,7 @@ import { closeDb, db, getPool } from "@db/client.server";
 import { libraries, users, workspaces } from "@db/schema";
 import { makeBigCsv } from "../../fixtures/csv/make-big";
 import { analyseCsv } from "~/lib/import";
-import { createLibrary, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries.server";
-import { getUploadMeta } from "~/lib/uploads.server";
+import { createLibrary, getUpload, importUpload, insertPoints, storeUpload, type Viewer } from "~/lib/libraries.server";
 import { runJob } from "~/lib/libraries/analysis-jobs";
 import { workspacesOf } from "~/lib/auth/guards.server";
 import { stopAnalysisWorker, summariseUpload } from "~/lib/upload-analysis.server";
@@ -122,7 +121,7 @@ export async function runImportBench(points = 100_000, runs = 1): Promise<BenchR
       const libId = await createLibrary(viewer, { name: `${name} ${Date.now()}`, description: "benchmark, deleted afterwards" });
       libs.push(libId);
       const uploadId = await storeUpload(viewer, libId, file);
-      const { lib, upload } = await getUploadMeta(viewer, libId, uploadId);
+      const { lib, upload } = await getUpload(viewer, libId, uploadId);
       const summary = await summariseUpload(upload, "stored", lib.mappingJson);
       return { libId, uploadId, mapping: summary.mapping };
     };
