@@ -4,7 +4,8 @@
 // costs nothing; imports and the API's report get an import plan (app/lib/libraries/analysis-jobs.ts)
 // from the worker for files over OFF_THREAD_BYTES, and analyse small files in the calling thread.
 // The bytes are copied once and moved (transferred) to the worker; the plan's typed arrays are moved
-// back. Each app process keeps its own worker and small cache.
+// back, and then the LOAD DATA lines of its curve sets and points (import-plan.ts Lines), which the
+// worker makes while the import's transaction starts (plan.lines: never rejected, null when missing). Each app process keeps its own worker and small cache.
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
@@ -65,7 +66,13 @@ function getWorker(): Worker {
       return;
     }
     const p = pending.get(m.id);
-    if (!p) return;
+    if (!p) {
+      // a failure after the plan was sent: its lines will not come
+      pendingLines.get(m.id)?.sets(null);
+      pendingLines.get(m.id)?.points(null);
+      pendingLines.delete(m.id);
+      return;
+    }
     pending.delete(m.id);
     const plan = m.ok && m.out && "plan" in m.out ? m.out.plan : null;
     if (plan) {
