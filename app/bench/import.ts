@@ -15,7 +15,8 @@
  * (a) and (c) run back to back, their order swapped every run (the machine is shared: load drifts);
  * no rows are deleted until the end (a purge running under the next measurement would slow it). The
  * ratio is (c) time / (a) time per run, i.e. (a)'s rows/s over (c)'s. The server's CPU time
- * (mariadbd's, from /proc, when the server is local) is shown beside the wall times.
+ * (mariadbd's, from /proc, when the server is local) and this process's (all threads) are shown
+ * beside the wall times: on a shared machine the wall time is mostly waiting for a core.
  * Also: parse + validate alone (analyseCsv, wall and CPU time), the worker's job in this thread, and
  * once at the end the older ways to write points (multi-row INSERTs, conn.batch).
  *
@@ -47,6 +48,8 @@ export interface BenchRow {
   seconds: number;
   /** mariadbd's CPU time during the step (s), when measured. */
   serverCpu?: number;
+  /** This process's CPU time during the step (s): every thread, the analysis worker's included. */
+  clientCpu?: number;
 }
 
 const SCRATCH = "bench_curve_points_scratch";
@@ -70,13 +73,15 @@ async function serverCpuReader(): Promise<() => number | null> {
   }
 }
 
-async function time<T>(fn: () => Promise<T> | T, serverCpu?: () => number | null): Promise<{ out: T; seconds: number; serverCpu?: number }> {
+async function time<T>(fn: () => Promise<T> | T, serverCpu?: () => number | null): Promise<{ out: T; seconds: number; serverCpu?: number; clientCpu: number }> {
   const s0 = serverCpu?.() ?? null;
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   const out = await fn();
   const seconds = (performance.now() - t0) / 1000;
+  const c = process.cpuUsage(c0);
   const s1 = serverCpu?.() ?? null;
-  return { out, seconds, serverCpu: s0 !== null && s1 !== null ? s1 - s0 : undefined };
+  return { out, seconds, serverCpu: s0 !== null && s1 !== null ? s1 - s0 : undefined, clientCpu: (c.user + c.system) / 1e6 };
 }
 
 const cpuSeconds = (fn: () => unknown) => {
@@ -164,11 +169,11 @@ export async function runImportBench(points = 100_000, runs = 1): Promise<BenchR
       const a = async () => {
         const imp = await time(() => importUpload(viewer, next.libId, next.uploadId, next.mapping, "bench"), serverCpu);
         if (imp.out.points !== points) throw new Error(`imported ${imp.out.points} points, expected ${points}`);
-        rows.push({ label: `(a) service importUpload${tag}`, rows: imp.out.points, seconds: imp.seconds, serverCpu: imp.serverCpu });
+        rows.push({ label: `(a) service importUpload${tag}`, rows: imp.out.points, seconds: imp.seconds, serverCpu: imp.serverCpu, clientCpu: imp.clientCpu });
       };
       const c = async () => {
         const load = await time(() => loadFile(conn, "curve_points", infile, points), serverCpu);
-        rows.push({ label: `(c) LOAD DATA LOCAL INFILE → curve_points${tag}`, rows: points, seconds: load.seconds, serverCpu: load.serverCpu });
+        rows.push({ label: `(c) LOAD DATA LOCAL INFILE → curve_points${tag}`, rows: points, seconds: load.seconds, serverCpu: load.serverCpu, clientCpu: load.clientCpu });
       };
       if (run % 2) {
         await c();
@@ -179,7 +184,7 @@ export async function runImportBench(points = 100_000, runs = 1): Promise<BenchR
       }
       await conn.query(`CREATE TABLE ${SCRATCH} LIKE curve_points`); // MariaDB copies columns and indexes, not foreign keys
       const scratch = await time(() => loadFile(conn, SCRATCH, infile, points), serverCpu);
-      rows.push({ label: `(c') LOAD DATA → new empty copy (no FK)${tag}`, rows: points, seconds: scratch.seconds, serverCpu: scratch.serverCpu });
+      rows.push({ label: `(c') LOAD DATA → new empty copy (no FK)${tag}`, rows: points, seconds: scratch.seconds, serverCpu: scratch.serverCpu, clientCpu: scratch.clientCpu });
       await conn.query(`DROP TABLE ${SCRATCH}`);
       rmSync(infile);
     }
@@ -192,14 +197,14 @@ export async function runImportBench(points = 100_000, runs = 1): Promise<BenchR
         await insertPoints(conn, rowsB);
         await conn.commit();
       }, serverCpu);
-      rows.push({ label: "(b) insertPoints (multi-row INSERTs) → curve_points", rows: rowsB.length, seconds: b.seconds, serverCpu: b.serverCpu });
+      rows.push({ label: "(b) insertPoints (multi-row INSERTs) → curve_points", rows: rowsB.length, seconds: b.seconds, serverCpu: b.serverCpu, clientCpu: b.clientCpu });
       const rowsB2 = flat(600_000);
       const b2 = await time(async () => {
         await conn.beginTransaction();
         await conn.batch(`INSERT INTO curve_points ${COLUMNS} VALUES (?,?,?,?,?,?,?)`, rowsB2);
         await conn.commit();
       }, serverCpu);
-      rows.push({ label: "(b') conn.batch → curve_points", rows: rowsB2.length, seconds: b2.seconds, serverCpu: b2.serverCpu });
+      rows.push({ label: "(b') conn.batch → curve_points", rows: rowsB2.length, seconds: b2.seconds, serverCpu: b2.serverCpu, clientCpu: b2.clientCpu });
     }
   } finally {
     await conn.query(`DROP TABLE IF EXISTS ${SCRATCH}`).catch(() => {});
@@ -217,7 +222,7 @@ export function formatTable(rows: BenchRow[]): string {
   const runOf = (label: string) => /#\d+$/.exec(label)?.[0] ?? "";
   const loadRate = new Map(rows.filter((r) => r.label.startsWith("(c)")).map((r) => [runOf(r.label), r.rows / r.seconds]));
   const median = [...loadRate.values()].sort((x, y) => x - y)[loadRate.size >> 1];
-  const out = [["", "rows", "ms", "server CPU ms", "rows/s", "vs (c)"]];
+  const out = [["", "rows", "ms", "server CPU ms", "client CPU ms", "rows/s", "vs (c)"]];
   for (const r of rows) {
     const rate = r.rows / r.seconds;
     const base = loadRate.get(runOf(r.label)) ?? median;
@@ -226,6 +231,7 @@ export function formatTable(rows: BenchRow[]): string {
       String(r.rows),
       (r.seconds * 1000).toFixed(0),
       r.serverCpu === undefined ? "" : (r.serverCpu * 1000).toFixed(0),
+      r.clientCpu === undefined ? "" : (r.clientCpu * 1000).toFixed(0),
       Math.round(rate).toLocaleString("en-GB"),
       `${(rate / base).toFixed(2)}×`,
     ]);
@@ -244,12 +250,15 @@ export function summary(rows: BenchRow[], points: number, loadBefore: number[]):
   const rate = (r: BenchRow) => Math.round(r.rows / r.seconds).toLocaleString("en-GB");
   const cpuRatio = a.every((r, i) => r.serverCpu !== undefined && c[i].serverCpu !== undefined) ? a.map((r, i) => c[i].serverCpu! / r.serverCpu!) : [];
   const fmtLoad = (l: number[]) => l.map((x) => x.toFixed(1)).join(" ");
+  const cpuMs = (rs: BenchRow[], k: "serverCpu" | "clientCpu") => (rs.every((r) => r[k] !== undefined) ? Math.round(med(rs.map((r) => r[k]!)) * 1000) : "?");
   return [
     `import of ${points.toLocaleString("en-GB")} points (a) vs LOAD DATA LOCAL INFILE of the same rows into curve_points (c), per run:`,
     ...a.map((r, i) => `  run ${i + 1}: import ${ms(r)}, LOAD DATA ${ms(c[i])} (into an empty copy: ${ms(c2[i])}) → ratio ${ratios[i].toFixed(2)}× (goal ≥ 0.60×)`),
     `  median ratio ${med(ratios).toFixed(2)}×` +
       (cpuRatio.length ? ` · by the server's CPU time: median ${med(cpuRatio).toFixed(2)}× (LOAD DATA's server CPU / the import's)` : "") +
       ` · against the empty copy: median ${med(a.map((r, i) => c2[i].seconds / r.seconds)).toFixed(2)}×`,
+    `CPU time, medians: the import ${cpuMs(a, "serverCpu")} ms of the server's and ${cpuMs(a, "clientCpu")} ms of this process's; ` +
+      `LOAD DATA ${cpuMs(c, "serverCpu")} ms and ${cpuMs(c, "clientCpu")} ms`,
     `parse+validate (analyseCsv, warm): ${pick("parse+validate only (analyseCsv, again)").map(rate).join(", ")} rows/s wall; ` +
       `${pick("parse+validate only, CPU time").map(rate).join(", ")} rows/s of CPU time (goal ≥ 1 000 000); ` +
       `the worker's whole job (decode+parse+validate+plan): ${pick("worker's job").map(rate).join(", ")} rows/s of CPU time`,
