@@ -52,29 +52,30 @@ export type Lines = { bytes: Uint8Array; ends: Int32Array };
 /** Longest field: String() of a double has at most 24 characters ("-2.2250738585072014e-308"). */
 const MAX_FIELD = 25;
 
-/** Writes lines of numeric fields (each after a tab, \N for NaN) into bytes; `fill(line, field)` hands each line's fields to `field`. */
-function writeLines(count: number, fields: number, fill: (line: number, field: (x: number) => void) => void): Lines {
+/** Lines of `fields` numbers each (values: lines × fields, NaN for \N), each number after a tab, as bytes. */
+function writeLines(values: Float64Array, fields: number): Lines {
+  const count = values.length / fields;
   const ends = new Int32Array(count + 1);
-  let bytes = new Uint8Array(Math.max(1024, count * fields * 12));
+  let bytes = new Uint8Array(Math.max(1024, values.length * 12));
   let o = 0;
   // the characters of each number straight into the bytes (no line strings to join and encode)
-  const field = (x: number) => {
-    bytes[o++] = 9; // tab
-    if (x === x) {
-      const text = String(x);
-      for (let j = 0; j < text.length; j++) bytes[o++] = text.charCodeAt(j);
-    } else {
-      bytes[o++] = 92; // \N: NULL
-      bytes[o++] = 78;
-    }
-  };
-  for (let k = 0; k < count; k++) {
+  for (let k = 0, at = 0; k < count; k++) {
     if (o + fields * MAX_FIELD + 1 > bytes.length) {
       const grown = new Uint8Array(bytes.length * 2);
       grown.set(bytes.subarray(0, o));
       bytes = grown;
     }
-    fill(k, field);
+    for (let f = 0; f < fields; f++, at++) {
+      const x = values[at];
+      bytes[o++] = 9; // tab
+      if (x === x) {
+        const text = String(x);
+        for (let j = 0; j < text.length; j++) bytes[o++] = text.charCodeAt(j);
+      } else {
+        bytes[o++] = 92; // \N: NULL
+        bytes[o++] = 78;
+      }
+    }
     bytes[o++] = 10; // newline
     ends[k + 1] = o;
   }
@@ -84,7 +85,9 @@ function writeLines(count: number, fields: number, fill: (line: number, field: (
 /** The curve sets' lines: speed, impeller, flow range, head range (of the points as planned) and point count. */
 export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">): Lines {
   const v = plan.values;
-  return writeLines(plan.starts.length - 1, 7, (i, field) => {
+  const sets = plan.starts.length - 1;
+  const fields = new Float64Array(sets * 7);
+  for (let i = 0; i < sets; i++) {
     const a = plan.starts[i], b = plan.starts[i + 1];
     let lo = Infinity, hi = -Infinity;
     for (let k = a; k < b; k++) {
@@ -92,26 +95,25 @@ export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed"
       if (h < lo) lo = h;
       if (h > hi) hi = h;
     }
-    field(plan.setSpeed[i]);
-    field(plan.setImpeller[i]);
-    field(v[a * POINT_WIDTH]);
-    field(v[(b - 1) * POINT_WIDTH]);
-    field(hi);
-    field(lo);
-    field(b - a);
-  });
+    fields.set([plan.setSpeed[i], plan.setImpeller[i], v[a * POINT_WIDTH], v[(b - 1) * POINT_WIDTH], hi, lo, b - a], i * 7);
+  }
+  return writeLines(fields, 7);
 }
 
 /** The points' lines: seq within the curve set, then the five values. */
 export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
   const v = plan.values;
   const starts = plan.starts;
-  let set = 0;
-  return writeLines(starts[starts.length - 1], 6, (k, field) => {
-    while (k >= starts[set + 1]) set++;
-    field(k - starts[set]);
-    for (let f = 0, at = k * POINT_WIDTH; f < POINT_WIDTH; f++) field(v[at + f]);
-  });
+  const points = starts[starts.length - 1];
+  const fields = new Float64Array(points * 6);
+  for (let i = 0; i < starts.length - 1; i++)
+    for (let k = starts[i]; k < starts[i + 1]; k++) {
+      const o = k * 6;
+      const at = k * POINT_WIDTH;
+      fields[o] = k - starts[i];
+      for (let f = 0; f < POINT_WIDTH; f++) fields[o + 1 + f] = v[at + f];
+    }
+  return writeLines(fields, 6);
 }
 
 /** The typed arrays of a plan (to transfer between threads). */
