@@ -79,7 +79,7 @@ function writeLines(values: Float64Array, fields: number): Lines {
     bytes[o++] = 10; // newline
     ends[k + 1] = o;
   }
-  return { bytes: bytes.subarray(0, o), ends }; // (the spare room goes along when moved to the main thread: no copy)
+  return { bytes: bytes.slice(0, o), ends };
 }
 
 /** The curve sets' lines: speed, impeller, flow range, head range (of the points as planned) and point count. */
