@@ -8,22 +8,24 @@
  */
 import type { Mapping } from "./mapping";
 import { parseNumber } from "./numbers";
+import { packedResult, POINT_WIDTH, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
-import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type CurvePoint, type CurveSet, type ValidationResult } from "./validate";
+import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
 
 const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
 
 const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`)); // exact doubles up to 1e22
 
 /**
- * The number in body[i, end) when it is a plain decimal ([-+]digits[.digits]), read straight from
- * the character codes; NaN otherwise (the cell then goes through parseNumber). With at most 15
- * significant digits the mantissa is an exact integer and 10^k (k ≤ 22) an exact double, so one
- * division is correctly rounded: the same double as Number() gives (Clinger 1990, "How to read
- * floating point numbers accurately", the fast path).
+ * Writes to out[k] the number in body[i, end) when it is a plain decimal ([-+]digits[.digits]), read
+ * straight from the character codes; NaN otherwise (the cell then goes through parseNumber). With at
+ * most 15 significant digits the mantissa is an exact integer and 10^k (k ≤ 22) an exact double, so
+ * one division is correctly rounded: the same double as Number() gives (Clinger 1990, "How to read
+ * floating point numbers accurately", the fast path). Written into a Float64Array rather than
+ * returned, so that no boxed number is made per cell when the call is not inlined.
  */
-function numberAt(body: string, i: number, end: number, decimal: number): number {
+function numberAt(body: string, i: number, end: number, decimal: number, out: Float64Array, k: number): void {
   let neg = false;
   if (i < end) {
     const c = body.charCodeAt(i);
@@ -39,19 +41,34 @@ function numberAt(body: string, i: number, end: number, decimal: number): number
   for (; i < end; i++) {
     const c = body.charCodeAt(i);
     if (c >= 48 && c <= 57) {
-      if (m >= 1e14) return NaN;
+      if (m >= 1e14) {
+        out[k] = NaN;
+        return;
+      }
       m = m * 10 + (c - 48);
       any = true;
       if (dot) frac++;
     } else if (c === decimal && !dot) dot = true;
-    else return NaN;
+    else {
+      out[k] = NaN;
+      return;
+    }
   }
-  if (!any || frac > 22) return NaN;
-  const x = frac ? m / POW10[frac] : m;
-  return neg ? -x : x;
+  if (!any || frac > 22) out[k] = NaN;
+  else {
+    const x = frac ? m / POW10[frac] : m;
+    out[k] = neg ? -x : x;
+  }
 }
 
 const BLANK_LINE = /^[\s,;]*$/;
+
+/** body[a, e) has the same characters as body[pa, pe). */
+function sameText(body: string, a: number, e: number, pa: number, pe: number): boolean {
+  if (e - a !== pe - pa) return false;
+  for (let i = 0; i < e - a; i++) if (body.charCodeAt(a + i) !== body.charCodeAt(pa + i)) return false;
+  return true;
+}
 
 export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapping, density = WATER_20C_DENSITY): ValidationResult | null {
   if (mapping.layout !== "long" || body.indexOf('"') !== -1) return null;
@@ -90,14 +107,18 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   const cellEnd = new Int32Array(width);
   const decimal = dc ? 44 : 46;
   const num = new Float64Array(7);
-  const curveSets: CurveSet[] = [];
   const seen = new Set<string>();
-  let cur: CurveSet | null = null;
+  let cur: SetHead | null = null;
   let curModel = "";
-  let lastRaw = "\u0000"; // model cell text of the row above, and trimmed (to skip slicing repeats)
+  let lastA = -1; // model cell of the row above (body offsets), and its text trimmed: an unchanged cell makes no new string
+  let lastE = -1;
   let lastRawTrim = "";
   let curSpeed: number | null = null;
   let curImpeller: number | null = null;
+  let firstHead = 0; // head of the current curve's first point, and the point before
+  let prevFlow = 0;
+  let prevHead = 0;
+  let curPoints = 0;
   let pointRows = 0;
   let lastModel = "";
 
@@ -111,6 +132,9 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     line++;
   }
   const len = body.length;
+  let lines = 1; // records left at most (one per line): the store's size
+  for (let at = body.indexOf("\n", pos); at !== -1 && at < len - 1; at = body.indexOf("\n", at + 1)) lines++;
+  const store = new PointStore(lines);
   for (; pos < len; line++) {
     let end = body.indexOf("\n", pos);
     if (end === -1) end = len;
@@ -150,7 +174,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
         num[k] = NaN;
         continue;
       }
-      let x = numberAt(body, a, e, decimal);
+      numberAt(body, a, e, decimal, num, k);
+      let x = num[k];
       if (x !== x) x = parseNumber(body.slice(a, e), dc);
       if (!(x >= 0) || ((k === 0 || k === 1) && x === 0)) return null; // not a number, negative, zero key
       const si = x * factor[k];
@@ -161,11 +186,9 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     if (colOf[7] >= 0) {
       const a = cellStart[colOf[7]];
       const e = cellEnd[colOf[7]];
-      // same text as the row above: no new string
-      if (!(e - a === lastRaw.length && body.startsWith(lastRaw, a))) {
-        lastRaw = body.slice(a, e);
-        lastRawTrim = lastRaw.trim();
-      }
+      if (!sameText(body, a, e, lastA, lastE)) lastRawTrim = body.slice(a, e).trim();
+      lastA = a;
+      lastE = e;
       model = lastRawTrim;
       if (model) lastModel = model;
       else if (mapping.fillDownModel && lastModel) model = lastModel;
@@ -175,14 +198,15 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     const impeller = colOf[1] >= 0 ? num[1] : defImpeller;
 
     if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
+      if (cur && curPoints < 3) return null; // too few points
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
       seen.add(key);
-      cur = { key, model, speed, impellerDiameter: impeller, points: [], sourceRows: [], ok: true };
-      curveSets.push(cur);
+      cur = store.open({ key, model, speed, impellerDiameter: impeller });
       curModel = model;
       curSpeed = speed;
       curImpeller = impeller;
+      curPoints = 0;
     }
     for (let t = 8; t <= 10; t++) {
       const ci = colOf[t];
@@ -193,38 +217,30 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
         if (v) cur[f] = v;
       }
     }
-    const eff = num[4], pow = num[5], npsh = num[6];
-    let p: CurvePoint;
-    // one object shape for the usual full row (absent values stay absent, as in the full path)
-    if (eff === eff && pow === pow && npsh === npsh) p = { flow: num[2], head: num[3], efficiency: eff, power: pow, npshr: npsh };
+    const flow = num[2], head = num[3], eff = num[4], pow = num[5];
+    if (curPoints === 0) firstHead = head;
     else {
-      p = { flow: num[2], head: num[3] };
-      if (eff === eff) p.efficiency = eff;
-      if (pow === pow) p.power = pow;
-      if (npsh === npsh) p.npshr = npsh;
+      if (!(flow > prevFlow)) return null;
+      if (head - prevHead > 0.05 * firstHead + 1e-12) return null;
     }
-    const pts = cur.points;
-    if (pts.length) {
-      const prev = pts[pts.length - 1];
-      if (!(p.flow > prev.flow)) return null;
-      if (p.head - prev.head > 0.05 * pts[0].head + 1e-12) return null;
+    if (eff === eff && pow === pow && pow > 0 && flow > 0) {
+      const eta = (density * G_STANDARD * flow * head) / pow;
+      if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
     }
-    if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
-      const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
-      if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE) return null;
-    }
-    pts.push(p);
-    cur.sourceRows.push(line);
+    const n = store.next();
+    const o = n * POINT_WIDTH;
+    const vals = store.values;
+    vals[o] = flow;
+    vals[o + 1] = head;
+    vals[o + 2] = eff;
+    vals[o + 3] = pow;
+    vals[o + 4] = num[6];
+    store.lines[n] = line;
+    prevFlow = flow;
+    prevHead = head;
+    curPoints++;
   }
-  if (pointRows === 0) return null;
-  let points = 0;
-  for (const c of curveSets) {
-    if (c.points.length < 3) return null;
-    points += c.points.length;
-  }
-  return {
-    curveSets,
-    problems: [],
-    stats: { pointRows, pointsAccepted: points, curveSets: curveSets.length, curveSetsOk: curveSets.length, errors: 0, warnings: 0 },
-  };
+  if (pointRows === 0 || curPoints < 3) return null;
+  const sets = store.sets.length;
+  return packedResult(store, { pointRows, pointsAccepted: store.count, curveSets: sets, curveSetsOk: sets, errors: 0, warnings: 0 });
 }

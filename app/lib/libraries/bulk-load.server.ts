@@ -37,8 +37,8 @@ export function bulkText(rows: readonly (readonly BulkValue[])[]): string {
  * Returns the number of rows the server reports; throws when it differs from `expected` or when the
  * server reports warnings (a truncated or converted value would otherwise pass silently).
  */
-/** The LOAD DATA text as one string, or as pieces made while the server is already reading (formatting overlaps the load). */
-export type BulkSource = string | (() => Iterable<string>);
+/** The LOAD DATA text as one string, or as pieces (text, or bytes already UTF-8) made while the server is already reading (formatting overlaps the load). */
+export type BulkSource = string | (() => Iterable<string | Uint8Array>);
 
 export async function bulkLoad(
   conn: PoolConnection,
@@ -100,7 +100,7 @@ async function load(conn: PoolConnection, table: string, columns: string[], text
       // every piece of a sync generator in one go (seconds for 200 000 points, nothing else served).
       return Readable.from((async function* () {
         for (const piece of pieces) {
-          yield Buffer.from(piece, "utf8");
+          yield typeof piece === "string" ? Buffer.from(piece, "utf8") : Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength);
           await yieldToLoop();
         }
       })());

@@ -4,6 +4,7 @@
 // per point: flow, head, efficiency, power, npshr; NaN when absent), curve sets as typed arrays, one
 // entry per model; it crosses to the main thread by transfer, not by copying 100 000 objects.
 import { curveNameOfKey, type CurveSet, type Mapping } from "../import";
+import { packedOf, POINT_WIDTH, PointStore } from "../import/packed";
 import type { StoredAnalysis } from "./upload-analysis";
 
 export type PlannedModel = {
@@ -30,7 +31,90 @@ export type ImportPlan = {
   points: number;
   /** Curve sets found but not written (flagged, or failing the write check below). */
   skipped: number;
+  /**
+   * The LOAD DATA lines of the curve sets and of the points (without the ids in front, see Lines),
+   * when the analysis worker makes them: after it has sent the plan, so while the import's
+   * transaction writes what comes before them; null when it could not. Absent: the writer formats
+   * them from the arrays itself.
+   */
+  lines?: { sets: Promise<Lines | null>; points: Promise<Lines | null> };
 };
+
+/**
+ * LOAD DATA lines as ASCII bytes without the ids that only the transaction knows, and where each line
+ * ends (lines + 1 offsets, the first 0). The writer puts the ids in front (import-write.server.ts
+ * withIds): a copy, not a number formatted, on the main thread.
+ * - curve sets: "\tspeed\timpeller\tflow_min\tflow_max\thead_max\thead_min\tpoint_count\n" (model id and revision id go in front);
+ * - points: "\tseq\tflow\thead\tefficiency\tpower\tnpshr\n" (the curve set's id goes in front); \N when absent.
+ */
+export type Lines = { bytes: Uint8Array; ends: Int32Array };
+
+/** Longest field: String() of a double has at most 24 characters ("-2.2250738585072014e-308"). */
+const MAX_FIELD = 25;
+
+/** Lines of `fields` numbers each (values: lines × fields, NaN for \N), each number after a tab, as bytes. */
+function writeLines(values: Float64Array, fields: number): Lines {
+  const count = values.length / fields;
+  const ends = new Int32Array(count + 1);
+  let bytes = new Uint8Array(Math.max(1024, values.length * 12));
+  let o = 0;
+  // the characters of each number straight into the bytes (no line strings to join and encode)
+  for (let k = 0, at = 0; k < count; k++) {
+    if (o + fields * MAX_FIELD + 1 > bytes.length) {
+      const grown = new Uint8Array(bytes.length * 2);
+      grown.set(bytes.subarray(0, o));
+      bytes = grown;
+    }
+    for (let f = 0; f < fields; f++, at++) {
+      const x = values[at];
+      bytes[o++] = 9; // tab
+      if (x === x) {
+        const text = String(x);
+        for (let j = 0; j < text.length; j++) bytes[o++] = text.charCodeAt(j);
+      } else {
+        bytes[o++] = 92; // \N: NULL
+        bytes[o++] = 78;
+      }
+    }
+    bytes[o++] = 10; // newline
+    ends[k + 1] = o;
+  }
+  return { bytes: bytes.slice(0, o), ends };
+}
+
+/** The curve sets' lines: speed, impeller, flow range, head range (of the points as planned) and point count. */
+export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">): Lines {
+  const v = plan.values;
+  const sets = plan.starts.length - 1;
+  const fields = new Float64Array(sets * 7);
+  for (let i = 0; i < sets; i++) {
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    let lo = Infinity, hi = -Infinity;
+    for (let k = a; k < b; k++) {
+      const h = v[k * POINT_WIDTH + 1];
+      if (h < lo) lo = h;
+      if (h > hi) hi = h;
+    }
+    fields.set([plan.setSpeed[i], plan.setImpeller[i], v[a * POINT_WIDTH], v[(b - 1) * POINT_WIDTH], hi, lo, b - a], i * 7);
+  }
+  return writeLines(fields, 7);
+}
+
+/** The points' lines: seq within the curve set, then the five values. */
+export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
+  const v = plan.values;
+  const starts = plan.starts;
+  const points = starts[starts.length - 1];
+  const fields = new Float64Array(points * 6);
+  for (let i = 0; i < starts.length - 1; i++)
+    for (let k = starts[i]; k < starts[i + 1]; k++) {
+      const o = k * 6;
+      const at = k * POINT_WIDTH;
+      fields[o] = k - starts[i];
+      for (let f = 0; f < POINT_WIDTH; f++) fields[o + 1 + f] = v[at + f];
+    }
+  return writeLines(fields, 6);
+}
 
 /** The typed arrays of a plan (to transfer between threads). */
 export const planBuffers = (p: ImportPlan): ArrayBuffer[] =>
@@ -53,10 +137,49 @@ export function writable(c: Pick<CurveSet, "model" | "points">): boolean {
   return true;
 }
 
+/** writable() on curve set `s` of a point store (POINT_WIDTH doubles per point, NaN when absent). */
+function writableInStore(store: PointStore, s: number): boolean {
+  const a = store.starts[s], b = store.end(s);
+  if (!store.sets[s].model.trim() || b - a < 3) return false;
+  const v = store.values;
+  let prev = -Infinity;
+  for (let k = a; k < b; k++) {
+    const o = k * POINT_WIDTH;
+    const flow = v[o], head = v[o + 1], eff = v[o + 2], power = v[o + 3], npshr = v[o + 4];
+    if (!(Number.isFinite(flow) && flow >= 0 && flow > prev && Number.isFinite(head) && head >= 0)) return false;
+    if (eff === eff && !(Number.isFinite(eff) && eff >= 0 && eff <= 1)) return false;
+    if ((power === power && !(Number.isFinite(power) && power >= 0)) || (npshr === npshr && !(Number.isFinite(npshr) && npshr >= 0))) return false;
+    prev = flow;
+  }
+  return true;
+}
+
+/** The ok and writable curve sets of a full-path result in a point store (the fast path's results come with one). */
+function storeOfGood(curveSets: CurveSet[]): PointStore {
+  const ok = curveSets.filter((c) => c.ok && writable(c));
+  const store = new PointStore(ok.reduce((n, c) => n + c.points.length, 0));
+  for (const c of ok) {
+    store.open(c);
+    for (const p of c.points) {
+      const o = store.next() * POINT_WIDTH;
+      store.values[o] = p.flow;
+      store.values[o + 1] = p.head;
+      store.values[o + 2] = p.efficiency ?? NaN;
+      store.values[o + 3] = p.power ?? NaN;
+      store.values[o + 4] = p.npshr ?? NaN;
+    }
+  }
+  return store;
+}
+
 /** The plan for the good curve sets of `analysis`, or null when none is good (nothing to import). */
 export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">): ImportPlan | null {
-  const all = analysis.result.curveSets;
-  const good = all.filter((c) => c.ok && writable(c));
+  // fast path: every curve set ok, its points already in typed arrays (never built as objects)
+  const packed = packedOf(analysis.result);
+  const store = packed ?? storeOfGood(analysis.result.curveSets);
+  const total = packed ? packed.sets.length : analysis.result.curveSets.length;
+  const good: number[] = [];
+  for (let s = 0; s < store.sets.length; s++) if (writableInStore(store, s)) good.push(s);
   if (good.length === 0) return null;
   const modelIndex = new Map<string, number>();
   const models: PlannedModel[] = [];
@@ -65,10 +188,13 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
   const setImpeller = new Float64Array(good.length);
   const starts = new Int32Array(good.length + 1);
   let points = 0;
-  for (const c of good) points += c.points.length;
-  const values = new Float64Array(points * 5);
+  for (const s of good) points += store.end(s) - store.starts[s];
+  // the plan's own copy (its buffer is moved to the main thread): the store's values at once when all are kept
+  const all = points === store.count;
+  const values = all ? store.values.slice(0, points * POINT_WIDTH) : new Float64Array(points * POINT_WIDTH);
   let k = 0;
-  good.forEach((c, i) => {
+  good.forEach((s, i) => {
+    const c = store.sets[s];
     let m = modelIndex.get(c.model);
     if (m === undefined) {
       m = models.length;
@@ -86,18 +212,12 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
     setSpeed[i] = c.speed ?? NaN;
     setImpeller[i] = c.impellerDiameter ?? NaN;
     starts[i] = k;
-    for (const p of c.points) {
-      const o = k * 5;
-      values[o] = p.flow;
-      values[o + 1] = p.head;
-      values[o + 2] = p.efficiency ?? NaN;
-      values[o + 3] = p.power ?? NaN;
-      values[o + 4] = p.npshr ?? NaN;
-      k++;
-    }
+    const a = store.starts[s], b = store.end(s);
+    if (!all) values.set(store.values.subarray(a * POINT_WIDTH, b * POINT_WIDTH), k * POINT_WIDTH);
+    k += b - a;
   });
   starts[good.length] = k;
-  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, starts, values, points, skipped: all.length - good.length };
+  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, starts, values, points, skipped: total - good.length };
 }
 
 /** What the API answers about an upload: the mapping used, what was read, and every problem by line and column. */

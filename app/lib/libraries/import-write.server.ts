@@ -7,12 +7,12 @@
 //
 // Progress goes to the `imports` row (import-progress.server.ts) from the pool, outside the
 // transaction, as the points are streamed: other requests see it while the import runs.
-import { asc, eq, sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { withTransaction } from "@db/client.server";
-import { curveSets, libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
+import { libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
 import { bulkLoad, bulkText, withoutKeyChecks } from "./bulk-load.server";
-import type { ImportPlan } from "./import-plan";
+import type { ImportPlan, Lines } from "./import-plan";
 import type { ProgressSink } from "./import-progress.server";
 
 export type ImportResult = { revisionId: number; number: number; models: number; curves: number; points: number; skipped: number };
@@ -66,11 +66,19 @@ export async function writeImport(
       await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length);
       const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
       for (const m of plan.models) if (!modelIds.has(m.name.slice(0, 160))) throw new Error(`import: model ${m.name} was not written`);
-      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], () => setsText(plan, modelIds, revisionId), curves);
+      // the worker's lines (made while the transaction got here), else formatted here
+      const setLines = usable(plan.lines && (await plan.lines.sets), curves);
+      const setText = setLines
+        ? () => withIds(setLines, Int32Array.from({ length: curves + 1 }, (_, i) => i), (i) => `${modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))}\t${revisionId}`, SETS_PER_PIECE)
+        : () => setsText(plan, modelIds, revisionId);
+      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], setText, curves);
       // Curve sets come back in insertion order (ascending id within this revision).
-      const setIds = (await tx.select({ id: curveSets.id }).from(curveSets).where(eq(curveSets.revisionId, revisionId)).orderBy(asc(curveSets.id))).map((r) => r.id);
+      // (plain rows as arrays: 10 000 ids without an object each)
+      const setIds = ((await conn.query({ sql: "SELECT id FROM curve_sets WHERE revision_id = ? ORDER BY id", rowsAsArray: true }, [revisionId])) as [number][]).map((r) => r[0]);
       if (setIds.length !== curves) throw new Error(`import: expected ${curves} curve sets, found ${setIds.length}`);
-      await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], () => pointsText(plan, setIds, hooks.progress), plan.points);
+      const lines = usable(plan.lines && (await plan.lines.points), plan.points);
+      const points = lines ? () => withIds(lines, plan.starts, (i) => String(setIds[i]), POINTS_PER_PIECE, hooks.progress) : () => pointsText(plan, setIds, hooks.progress);
+      await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], points, plan.points);
     });
     await tx
       .update(libraries)
@@ -85,7 +93,7 @@ const SETS_PER_PIECE = 2000;
 const optField = (x: number) => (x === x ? String(x) : "\\N");
 
 /** Curve sets as LOAD DATA text, in pieces (the stream takes one per turn of the event loop). */
-function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
+export function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
   const v = plan.values;
   const curves = plan.setModel.length;
   let s = "";
@@ -137,5 +145,42 @@ export function* pointsText(plan: Pick<ImportPlan, "starts" | "values">, setIds:
   if (s) {
     yield s;
     progress?.(done + inPiece);
+  }
+}
+
+/** The worker's lines when they are there and one per row expected. */
+const usable = (lines: Lines | null | undefined, rows: number) => (lines && lines.ends.length === rows + 1 ? lines : null);
+
+/**
+ * LOAD DATA bytes from the worker's lines (import-plan.ts Lines): each line of group g — lines
+ * [starts[g], starts[g + 1]), the last entry of `starts` being the number of lines — gets prefix(g)
+ * in front, byte by byte: no number is formatted here. Pieces of whole groups, about `perPiece`
+ * lines each, each reporting the lines so far to `progress`.
+ */
+export function* withIds(lines: Lines, starts: ArrayLike<number>, prefix: (group: number) => string, perPiece: number, progress?: ProgressSink): Generator<Uint8Array> {
+  const { bytes, ends } = lines;
+  const groups = starts.length - 1;
+  const texts: string[] = [];
+  let g = 0;
+  while (g < groups) {
+    // the groups of this piece, and the room their lines take with their prefixes
+    let h = g;
+    let room = 0;
+    for (; h < groups && starts[h] - starts[g] < perPiece; h++) {
+      texts[h - g] = prefix(h);
+      room += ends[starts[h + 1]] - ends[starts[h]] + (starts[h + 1] - starts[h]) * texts[h - g].length;
+    }
+    const piece = Buffer.allocUnsafe(room);
+    let o = 0;
+    for (let i = g; i < h; i++) {
+      const text = texts[i - g];
+      for (let k = starts[i]; k < starts[i + 1]; k++) {
+        for (let d = 0; d < text.length; d++) piece[o++] = text.charCodeAt(d);
+        for (let x = ends[k], e = ends[k + 1]; x < e; x++) piece[o++] = bytes[x];
+      }
+    }
+    yield piece;
+    progress?.(starts[h]);
+    g = h;
   }
 }

@@ -4,7 +4,8 @@
 // costs nothing; imports and the API's report get an import plan (app/lib/libraries/analysis-jobs.ts)
 // from the worker for files over OFF_THREAD_BYTES, and analyse small files in the calling thread.
 // The bytes are copied once and moved (transferred) to the worker; the plan's typed arrays are moved
-// back. Each app process keeps its own worker and small cache.
+// back, and then the LOAD DATA lines of its curve sets and points (import-plan.ts Lines), which the
+// worker makes while the import's transaction starts (plan.lines: never rejected, null when missing). Each app process keeps its own worker and small cache.
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
@@ -14,6 +15,7 @@ import { db } from "@db/client.server";
 import { uploads } from "@db/schema";
 import type { UploadSummary } from "./upload-analysis";
 import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./analysis-jobs";
+import type { Lines } from "./import-plan";
 
 /** Files up to this size are analysed for imports in the calling thread (tens of milliseconds at most). */
 export const OFF_THREAD_BYTES = 256 * 1024;
@@ -39,6 +41,9 @@ const cache = new Map<string, Promise<UploadSummary>>();
 let worker: Worker | null = null;
 let seq = 0;
 const pending = new Map<number, { resolve: (s: AnalysisOutput) => void; reject: (e: Error) => void }>();
+/** Import plans whose LOAD DATA lines the worker is still making (one message per part after the plan's; null when it cannot). */
+type Part = "sets" | "points";
+const pendingLines = new Map<number, Record<Part, (lines: Lines | null) => void>>();
 
 /** The bundled worker next to the server build, else the TypeScript source through tsx's loader (development, tests). */
 function startWorker(): Worker {
@@ -53,10 +58,29 @@ function getWorker(): Worker {
   if (worker) return worker;
   const w = startWorker();
   w.unref(); // never keeps a process alive
-  w.on("message", (m: { id: number; ok: boolean; out?: AnalysisOutput; name?: string; message?: string; issues?: { message: string; path?: string[] }[] }) => {
+  type Message = { id: number; ok: boolean; out?: AnalysisOutput; name?: string; message?: string; issues?: { message: string; path?: string[] }[]; part?: Part; lines?: Lines | null };
+  w.on("message", (m: Message) => {
+    if (m.part) {
+      pendingLines.get(m.id)?.[m.part](m.lines ?? null);
+      if (m.part === "points") pendingLines.delete(m.id);
+      return;
+    }
     const p = pending.get(m.id);
-    if (!p) return;
+    if (!p) {
+      // a failure after the plan was sent: its lines will not come
+      pendingLines.get(m.id)?.sets(null);
+      pendingLines.get(m.id)?.points(null);
+      pendingLines.delete(m.id);
+      return;
+    }
     pending.delete(m.id);
+    const plan = m.ok && m.out && "plan" in m.out ? m.out.plan : null;
+    if (plan) {
+      // never rejected: null, and the writer formats them itself
+      const waiting = {} as Record<Part, (lines: Lines | null) => void>;
+      plan.lines = { sets: new Promise((r) => (waiting.sets = r)), points: new Promise((r) => (waiting.points = r)) };
+      pendingLines.set(m.id, waiting);
+    }
     if (m.ok) p.resolve(m.out!);
     else p.reject(new AnalysisFailed(m.message ?? "The file could not be analysed.", m.issues, m.name));
   });
@@ -65,6 +89,11 @@ function getWorker(): Worker {
     for (const [id, p] of pending) {
       pending.delete(id);
       p.reject(err instanceof Error ? err : new Error(String(err)));
+    }
+    for (const [id, waiting] of pendingLines) {
+      pendingLines.delete(id);
+      waiting.sets(null);
+      waiting.points(null);
     }
   };
   w.on("error", fail);

@@ -3,10 +3,12 @@
 // build/server/upload-analysis-worker.mjs by react-router.config.ts (buildEnd); run through tsx
 // from source in development and tests.
 // With an upload id instead of bytes, the worker reads the stored bytes itself (its own small pool),
-// so a big blob never passes through the main thread.
+// so a big blob never passes through the main thread. After an import plan it sends the points'
+// LOAD DATA lines in a second message (the main thread is writing models and curve sets meanwhile).
 import { parentPort } from "node:worker_threads";
 import { getPool } from "../../../db/client.server";
 import { runJob, transferablesOf, type AnalysisJob } from "./analysis-jobs";
+import { pointLines, setLines } from "./import-plan";
 
 async function storedBytes(uploadId: number): Promise<Uint8Array> {
   const rows = (await getPool().query("SELECT content FROM uploads WHERE id = ?", [uploadId])) as { content: Uint8Array }[];
@@ -18,7 +20,21 @@ parentPort?.on("message", async ({ id, job, uploadId }: { id: number; job: Analy
   try {
     if (uploadId !== undefined) job = { ...job, bytes: await storedBytes(uploadId) };
     const out = runJob(job);
+    // an import plan's arrays move to the main thread: keep what its LOAD DATA lines are made from
+    const p = "plan" in out && out.plan ? out.plan : null;
+    const keep = p && { starts: p.starts.slice(), values: p.values.slice(), setSpeed: p.setSpeed.slice(), setImpeller: p.setImpeller.slice() };
     parentPort!.postMessage({ id, ok: true, out }, transferablesOf(out));
+    // made while the main thread's transaction writes what comes before them (import-plan.ts Lines)
+    if (keep)
+      for (const [part, make] of [["sets", setLines], ["points", pointLines]] as const) {
+        let lines = null;
+        try {
+          lines = make(keep);
+        } catch {
+          /* the writer formats them itself */
+        }
+        parentPort!.postMessage({ id, part, lines }, lines ? [lines.bytes.buffer as ArrayBuffer, lines.ends.buffer as ArrayBuffer] : []);
+      }
   } catch (e) {
     const err = e as Error & { issues?: { message: string; path?: { key: unknown }[] }[] };
     parentPort!.postMessage({
