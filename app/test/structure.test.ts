@@ -1,6 +1,8 @@
-// A house rule of issue 15 a reader can check without running the app: every page route has its own
-// ErrorBoundary (components/RouteError.tsx), in that route's words. A new page without one fails here.
-import { readFileSync } from "node:fs";
+// House rules of issue 15 a reader can check without running the app: every page route has its own
+// ErrorBoundary (components/RouteError.tsx), in that route's words; no file in app/ is past 400 lines
+// (engine data tables may be listed below, none is today); app/lib holds only domain folders, each
+// with an index.ts as its face. A change that breaks one fails here.
+import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, test } from "vitest";
 import routes from "~/routes";
@@ -23,5 +25,34 @@ describe("structure", () => {
     });
     expect(files.size).toBeGreaterThan(20);
     expect(missing).toEqual([]);
+  });
+
+  /** Engine files that are only data tables (sizes, K values) may run longer; none does today. */
+  const LONG_TABLES = new Set<string>([]);
+  const MAX_LINES = 400;
+
+  const sources = (dir: string): string[] =>
+    readdirSync(dir).flatMap((name) => {
+      const full = path.join(dir, name);
+      if (statSync(full).isDirectory()) return name === "+types" ? [] : sources(full);
+      return /\.(ts|tsx|mjs|js)$/.test(name) ? [full] : [];
+    });
+
+  test(`no file in app/ is over ${MAX_LINES} lines`, () => {
+    const files = sources(path.join(ROOT, "app"));
+    expect(files.length).toBeGreaterThan(300);
+    const long = files
+      .map((f) => ({ file: path.relative(ROOT, f), lines: readFileSync(f, "utf8").split("\n").length - 1 }))
+      .filter((f) => f.lines > MAX_LINES && !LONG_TABLES.has(f.file));
+    expect(long).toEqual([]);
+  });
+
+  test("app/lib holds only domain folders, each with an index.ts", () => {
+    const lib = path.join(ROOT, "app", "lib");
+    const entries = readdirSync(lib);
+    const flat = entries.filter((e) => !statSync(path.join(lib, e)).isDirectory());
+    const faceless = entries.filter((e) => statSync(path.join(lib, e)).isDirectory() && !readdirSync(path.join(lib, e)).includes("index.ts"));
+    expect(flat).toEqual([]);
+    expect(faceless).toEqual([]);
   });
 });
