@@ -10,6 +10,7 @@
  */
 import { EngineInputError, requireInteger, requirePositive, type EngineWarning } from "./errors.ts";
 import { fullyRoughFrictionFactor } from "./friction.ts";
+import { qt } from "./quantityText.ts";
 
 /** n by nominal size: the first band whose `upTo` (in, inclusive) is ≥ the size applies. */
 export interface SizeBand {
@@ -153,11 +154,11 @@ export function fittingKDetailed(fittingId: string, diameter: number, nominal?: 
   if (f.model.type === "fixed") return { k: f.model.k, warnings: [] };
   const warnings: EngineWarning[] = [];
   const size = sizeOf(diameter, nominal);
-  const what = size.fromNominal ? `nominal size ${fmtIn(size.inches)} in` : `bore ${fmtIn(size.inches)} in`;
+  const what = size.fromNominal ? `nominal size ${fmtIn(size.inches)} in` : `bore ${qt("diameter", diameter)}`; // a nominal size is a name; a bore a length
   const slack = size.fromNominal ? 1 : 0.9;
   if (f.sizeRange && (size.inches < f.sizeRange.min * slack || size.inches > f.sizeRange.max)) {
     warnings.push({ code: "fitting-size-outside-range", parameter: "nominal",
-      message: `${f.name}: ${what} is outside the ${fmtIn(f.sizeRange.min)}–${fmtIn(f.sizeRange.max)} in the reference covers; K extrapolated` });
+      message: `${f.name}: ${what} is outside the ${qt("diameter", f.sizeRange.min * 0.0254)}–${qt("diameter", f.sizeRange.max * 0.0254)} the reference covers; K extrapolated` });
   }
   const listed = nominal !== undefined && CRANE_FT[nominal] !== undefined;
   if (!listed && (size.inches < CRANE_FT_RANGE.min * slack || size.inches > CRANE_FT_RANGE.max)) {

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { fieldCheckPhotos, fieldChecks, outbox, workspaces } from "@db/schema";
+import { fieldCheckPhotos, fieldChecks, outbox, users, workspaces } from "@db/schema";
 import { fluidAt, gaugeTdh, TOLERANCE_GRADES, type ToleranceGrade } from "~/engine";
 import { fieldSelection, getFieldCheck, checkHistory, recordFieldCheck } from "./records.server";
 import { readPhotos, sniffImage, PhotoRejected } from "./photos.server";
@@ -288,7 +288,13 @@ describe("recorded checks across workspaces", () => {
   test("an amendment is a new version; the first stays as it was; only the recording workspace may amend", async () => {
     const [v1] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, checkId));
     const rd = readingsFromFields(fieldsForHead(40, RHO20, { flow: "0.012" })); // 40 m at 0.012: far above the curve (28 m) → fail
+    // The engineer reads in US units with flow in L/s: the notice speaks them (0.012 m³/s = 12.0 L/s; 40 m = 131 ft, 1 ft = 0.3048 m, NIST SP 811).
+    await db().update(users).set({ unitSystem: "US", units: JSON.stringify({ flow: "L/s" }) }).where(eq(users.id, eng.userId));
     const r = await recordFieldCheck(conV, sel.selectionId, { readings: rd, fields: {}, notes: "re-read after gauge swap", gradeId: "2B", amends: checkId });
+    await db().update(users).set({ unitSystem: "SI", units: "{}" }).where(eq(users.id, eng.userId));
+    const [notice] = await db().select().from(outbox).where(eq(outbox.toAddress, eng.email)).orderBy(desc(outbox.id)).limit(1);
+    expect(notice.textBody).toMatch(/Delivered 12\.0 L\/s \(measured\) at 131 ft/);
+    expect(notice.textBody).not.toMatch(/m³\/h|\d m\b|⟦/);
     const [v2] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, r.id));
     expect(v2).toMatchObject({ chainId: checkId, version: 2, verdict: "fail" });
     const [v1after] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, checkId));
