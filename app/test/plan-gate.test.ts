@@ -8,7 +8,7 @@ import { eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, workspaces } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
+import { analyseStored, createLibrary, deleteLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
 import { createProject, createSystem, selectCandidate } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { call, makeMember, makeWorkspace, type TestMember } from "./harness";
@@ -25,6 +25,8 @@ import * as selectionJson from "~/routes/selections.$id.export-json";
 import { forgetTokens } from "~/lib/auth/token-cache.server";
 
 type Ctx = {
+  /** The distributor who shares the library (removes it when the sweep ends). */
+  distributor: Viewer;
   engineer: TestMember;
   token: string;
   libraryId: number;
@@ -89,9 +91,14 @@ beforeAll(async () => {
   expect((frozenPoints as unknown[]).length).toBeGreaterThan(2);
 
   const { token } = await createApiToken({ userId: engineer.userId, workspaceId: firm.id, name: "gate", scope: "read" });
-  c = { engineer, token, libraryId, description, sharedSets, systemId, freshSetId, earlierSetId, selectionId, frozenPoints };
+  c = { distributor: dv, engineer, token, libraryId, description, sharedSets, systemId, freshSetId, earlierSetId, selectionId, frozenPoints };
 });
-afterAll(() => closeDb());
+// The shared library goes when the sweep ends (archived: a selection uses it), so a second run on the
+// same database does not find this run's identical curves shared twice.
+afterAll(async () => {
+  if (c) await deleteLibrary(c.distributor, c.libraryId);
+  await closeDb();
+});
 
 const asEngineer = (path: string, extra: Partial<Parameters<typeof call>[1]> = {}) => ({ path, cookie: c.engineer.cookie, ...extra });
 type View = { candidates: { curveSetId: number; result: { curve: unknown[] } | null }[] };
