@@ -15,6 +15,7 @@ import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
 import { renderDeep } from "~/lib/shared/units";
 import { fmtDate } from "~/lib/shared/format";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -93,28 +94,19 @@ export default function ProjectPage() {
         {d.systems.length === 0 ? (
           <p className="mt-2 text-sm text-slate-600">No systems yet.</p>
         ) : (
-          <table className="mt-2 w-full text-sm">
-            <thead className="text-left text-slate-600">
-              <tr>
-                <th className="py-1">System</th>
-                <th>Kind</th>
-                <th>Duty</th>
+          <ListTable head={["System", "Kind", "Duty"]}>
+            {d.systems.map((s) => (
+              <tr key={s.id} className="border-t border-slate-100">
+                <td className="py-1">
+                  <a href={`/systems/${s.id}`} className="font-semibold">
+                    {s.name}
+                  </a>
+                </td>
+                <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
+                <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
               </tr>
-            </thead>
-            <tbody>
-              {d.systems.map((s) => (
-                <tr key={s.id} className="border-t border-slate-100">
-                  <td className="py-1">
-                    <a href={`/systems/${s.id}`} className="font-semibold">
-                      {s.name}
-                    </a>
-                  </td>
-                  <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
-                  <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+            ))}
+          </ListTable>
         )}
         {d.canWrite ? (
           <Form method="post" className="mt-3 flex flex-wrap items-end gap-3">

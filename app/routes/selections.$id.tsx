@@ -17,6 +17,7 @@ import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
 import { fmtDate, fmtDateTime } from "~/lib/shared/format";
+import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
 
@@ -157,38 +158,27 @@ export default function SelectionReport() {
 
       <section className="panel break-inside-avoid">
         <h2 className="font-semibold">Pipe runs</h2>
-        <table className="mt-2 w-full text-sm">
-          <thead className="text-left text-slate-600">
-            <tr>
-              <th className="py-1">Run</th>
-              <th>Inner diameter</th>
-              <th>Length</th>
-              <th>Roughness new / aged</th>
-              <th>Fittings and ΣK</th>
+        <ListTable head={["Run", "Inner diameter", "Length", "Roughness new / aged", "Fittings and ΣK"]}>
+          {input.runs.map((r, i) => (
+            <tr key={i} className="border-t border-slate-100 align-top">
+              <td className="py-1">
+                {r.name} ({r.side})
+              </td>
+              <td>
+                {fmtQ(sys, "diameter", r.diameter)}
+                {r.pipeTable ? ` (${r.pipeTable} ${r.nominal})` : ""}
+              </td>
+              <td>{fmtQ(sys, "length", r.length)}</td>
+              <td>
+                {fmtQ(sys, "roughness", r.roughness, 4)} / {fmtQ(sys, "roughness", r.agedRoughness, 4)}
+              </td>
+              <td className="text-xs">
+                {r.fittings.map((x) => `${x.count} × ${FITTING_NAMES[x.id] ?? x.id}`).join(", ") || "none"}
+                {r.extraK ? `; extra K ${r.extraK}` : ""}
+              </td>
             </tr>
-          </thead>
-          <tbody>
-            {input.runs.map((r, i) => (
-              <tr key={i} className="border-t border-slate-100 align-top">
-                <td className="py-1">
-                  {r.name} ({r.side})
-                </td>
-                <td>
-                  {fmtQ(sys, "diameter", r.diameter)}
-                  {r.pipeTable ? ` (${r.pipeTable} ${r.nominal})` : ""}
-                </td>
-                <td>{fmtQ(sys, "length", r.length)}</td>
-                <td>
-                  {fmtQ(sys, "roughness", r.roughness, 4)} / {fmtQ(sys, "roughness", r.agedRoughness, 4)}
-                </td>
-                <td className="text-xs">
-                  {r.fittings.map((x) => `${x.count} × ${FITTING_NAMES[x.id] ?? x.id}`).join(", ") || "none"}
-                  {r.extraK ? `; extra K ${r.extraK}` : ""}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </ListTable>
         <div className="mt-3">
           <RunTable view={view} unitSystem={sys} />
         </div>
