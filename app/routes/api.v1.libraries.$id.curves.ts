@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.curves";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { libraryCurves } from "~/lib/libraries";
 import { forbidden, notFound, badRequest } from "~/lib/shared/problem.server";
 import { IdField, readQuery } from "~/lib/shared/forms.server";
@@ -15,7 +16,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const rev = revParam ? v.safeParse(IdField, revParam) : null;
   if (rev && !rev.success) return badRequest("revision must be a number.");
   try {
-    const curves = await libraryCurves({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output, rev?.output);
+    const curves = await libraryCurves(viewerOfApi(c), id.output, rev?.output);
     return Response.json({ units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" }, curveSets: curves });
   } catch (e) {
     const status = (e as { init?: { status?: number } })?.init?.status;

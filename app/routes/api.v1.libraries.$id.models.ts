@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.models";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listModels } from "~/lib/libraries";
 import { badRequest } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
@@ -12,7 +13,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("Library id must be a number.");
   try {
-    const models = await listModels({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output);
+    const models = await listModels(viewerOfApi(c), id.output);
     return Response.json({ units: { flowMax: "m3/s", headMax: "m", impellerDiameter: "m", speed: "rpm" }, models });
   } catch (e) {
     return asProblem(e);

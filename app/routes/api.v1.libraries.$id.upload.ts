@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.libraries.$id.upload";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries";
 import { AnalysisFailed, analyseForImport } from "~/lib/libraries/upload-analysis.server";
 import { runImport } from "~/lib/libraries/import-run.server";
@@ -23,7 +24,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!(request.headers.get("content-type") ?? "").startsWith("multipart/form-data")) {
     return problem({ title: "Unsupported Media Type", status: 415, detail: "Send multipart/form-data with a 'file' field." });
   }
-  const viewer = { userId: c.userId, workspace: c.workspace, role: c.role };
+  const viewer = viewerOfApi(c);
   try {
     const form = await readFormSafe(request);
     const file = form.get("file");

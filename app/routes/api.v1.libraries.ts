@@ -1,10 +1,11 @@
 import type { Route } from "./+types/api.v1.libraries";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listLibraries } from "~/lib/libraries";
 
 // GET /api/v1/libraries — every library the caller may see; locked ones are listed without curves.
 export async function loader({ request }: Route.LoaderArgs) {
   const c = await requireApi(request, "library.read");
-  const list = await listLibraries({ userId: c.userId, workspace: c.workspace, role: c.role });
+  const list = await listLibraries(viewerOfApi(c));
   return Response.json({ libraries: list });
 }

@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.models.$id";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { getModel } from "~/lib/libraries";
 import { badRequest } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
@@ -12,7 +13,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("Model id must be a number.");
   try {
-    const m = await getModel({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output);
+    const m = await getModel(viewerOfApi(c), id.output);
     return Response.json({
       units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" },
       model: { id: m.model.id, name: m.model.name, type: m.model.type, size: m.model.nominalSize, notes: m.model.notes },

@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.preview";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemWorkbench } from "~/lib/projects";
 import { SystemInputSchema } from "~/lib/projects/hydraulics";
 import { badRequest, notFound } from "~/lib/shared/problem.server";
@@ -27,7 +28,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     });
   }
   try {
-    const bench = await systemWorkbench({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output, parsed.output.input);
+    const bench = await systemWorkbench(viewerOfApi(c), id.output, parsed.output.input);
     return Response.json(renderDeep(workbenchView(bench), c.units)); // text in the caller's units (SI for tokens)
   } catch (e) {
     if ((e as { init?: { status?: number } })?.init?.status === 404) return notFound();

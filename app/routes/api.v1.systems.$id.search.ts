@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.search";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { renderDeep } from "~/lib/shared/units";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
@@ -19,7 +20,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const bad = methods.find((m) => !(METHODS as readonly string[]).includes(m));
   if (bad !== undefined) return badRequest(`Unknown method "${bad.slice(0, 40)}": use direct, trim or speed.`);
   try {
-    const view = await systemSearchView({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output,
+    const view = await systemSearchView(viewerOfApi(c), id.output,
       { methods: methods.length ? (methods as (typeof METHODS)[number][]) : undefined });
     return Response.json(renderDeep(view, c.units));
   } catch (e) {

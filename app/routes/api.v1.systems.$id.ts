@@ -1,6 +1,7 @@
 import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id";
 import { requireApi } from "~/lib/auth/guards.server";
+import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { renderDeep } from "~/lib/shared/units";
 import { badRequest, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
@@ -14,7 +15,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("System id must be a number.");
   try {
-    return Response.json(renderDeep(await systemReadView({ userId: c.userId, workspace: c.workspace, role: c.role }, id.output), c.units));
+    return Response.json(renderDeep(await systemReadView(viewerOfApi(c), id.output), c.units));
   } catch (e) {
     return asProblem(e);
   }
