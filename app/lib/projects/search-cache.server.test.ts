@@ -2,46 +2,29 @@
 // the cached path gives exactly what a fresh build gives, and a new library revision is seen at once.
 // Against the real MariaDB with the demo libraries (npm test seeds them); check values come from the
 // uncached path itself (the reference) and from the demo file's own rows.
-import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "@db/client.server";
-import { libraries, workspaces } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries";
-import { createProject, createSystem, saveSystem, getSystem } from "./projects.server";
+import { libraries } from "@db/schema";
+import type { Viewer } from "../libraries";
+import { saveSystem, getSystem } from "./projects.server";
 import { clearSearchCaches, preparedCacheStats, searchForSystem } from "./search.server";
-import { defaultSystemInput, type SystemInput } from "./hydraulics";
-import { makeMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
+import type { SystemInput } from "./hydraulics";
+import { importCsvText, searchFixture } from "./test-kit";
 
 afterAll(() => closeDb());
 
-const M3H = 1 / 3600;
 let eng: Viewer;
 let systemId: number;
 let libId: number;
-const csv = readFileSync("fixtures/demo/tallowmere.csv", "utf8");
+let csv: string;
+const importText = (text: string) => importCsvText(eng, libId, text);
 
-async function importText(text: string) {
-  const uploadId = await storeUpload(eng, libId, new File([text], "t.csv", { type: "text/csv" }));
-  const u = await getUpload(eng, libId, uploadId);
-  await importUpload(eng, libId, uploadId, analyseStored(u.text, u.lib).mapping);
-}
 const strip = (r: Awaited<ReturnType<typeof searchForSystem>>) => JSON.stringify({ results: r.results, stats: r.stats, hidden: r.hidden });
 
 beforeAll(async () => {
-  const m = await makeMember("admin");
-  await db().update(workspaces).set({ plan: "network" }).where(eq(workspaces.id, m.workspaceId));
-  const ws = (await workspacesOf(m.userId))[0];
-  eng = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
-  libId = await createLibrary(eng, { name: "Cache check", description: "" });
   // First revision: the demo file without its last third of rows.
-  const lines = csv.split("\n");
-  await importText(lines.slice(0, Math.floor(lines.length * 0.66)).join("\n"));
-  await updateLibrary(eng, libId, { name: "Cache check", description: "", visibility: "workspace" });
-  const input: SystemInput = { ...defaultSystemInput(), staticLow: 12, staticHigh: 12, duty: { flow: 108 * M3H, head: 28 } };
-  input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
-  systemId = await createSystem(eng, await createProject(eng, { name: "Search cache", site: "", description: "" }), "Main", input);
+  ({ viewer: eng, systemId, libId, csv } = await searchFixture({ demoFile: "tallowmere.csv", library: "Cache check", project: "Search cache", fraction: 0.66 }));
 });
 
 describe("search caches", () => {

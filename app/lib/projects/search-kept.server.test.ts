@@ -3,39 +3,26 @@
 // same candidates, and a new revision or a plan change seen on the next search. Against the real
 // MariaDB with the demo libraries (npm test seeds them); the check values are the plain path's own
 // answers (`curvesOfRevisions` → `prepareSearchIndex` → `searchDuty`, the reference) and the demo file.
-import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "@db/client.server";
 import { workspaces } from "@db/schema";
 import { prepareSearchIndex, searchDuty } from "~/engine";
-import { analyseStored, createLibrary, curvesOfRevisions, getUpload, importUpload, searchableRevisions, storeUpload, updateLibrary, type LibraryCurveSet, type Viewer } from "../libraries";
-import { createProject, createSystem, getSystem } from "./projects.server";
+import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet } from "../libraries";
+import { getSystem } from "./projects.server";
 import { clearSearchCaches, preparedSearch, searchForSystem, searchOptionsFor, toEngineSet, type SearchFilters } from "./search.server";
 import { curveSetAt, keptRevisions, readRevisionCurves } from "./revision-curves.server";
-import { defaultSystemInput, evaluateSystem, type SystemInput } from "./hydraulics";
-import { makeMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
+import { evaluateSystem } from "./hydraulics";
+import { importCsvText, searchFixture, viewerOfUser } from "./test-kit";
 
 afterAll(() => closeDb());
 
-const M3H = 1 / 3600;
 let userId: string;
 let systemId: number;
 let libId: number;
-const csv = readFileSync("fixtures/demo/nordquay.csv", "utf8");
-
-/** The viewer as the guards build it on each request (the plan read from the database). */
-async function viewer(): Promise<Viewer> {
-  const ws = (await workspacesOf(userId))[0];
-  return { userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
-}
-async function importText(text: string) {
-  const v = await viewer();
-  const uploadId = await storeUpload(v, libId, new File([text], "n.csv", { type: "text/csv" }));
-  const u = await getUpload(v, libId, uploadId);
-  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping);
-}
+let csv: string;
+const viewer = () => viewerOfUser(userId);
+const importText = async (text: string) => importCsvText(await viewer(), libId, text, "n.csv");
 const strip = (r: Awaited<ReturnType<typeof searchForSystem>>) => JSON.stringify({ results: r.results, stats: r.stats, hidden: r.hidden, locked: r.locked.map((l) => l.id) });
 
 /** The plain engine over the open revisions' sets as `curvesOfRevisions` reads them, against the kept path's index. */
@@ -54,17 +41,8 @@ async function engineBothWays(filters: SearchFilters) {
 }
 
 beforeAll(async () => {
-  const m = await makeMember("admin");
-  userId = m.userId;
-  await db().update(workspaces).set({ plan: "network" }).where(eq(workspaces.id, m.workspaceId));
-  const v = await viewer();
-  libId = await createLibrary(v, { name: "Kept path check", description: "" });
-  const lines = csv.split("\n");
-  await importText(lines.slice(0, Math.floor(lines.length * 0.5)).join("\n")); // first revision: half the demo file
-  await updateLibrary(v, libId, { name: "Kept path check", description: "", visibility: "workspace" });
-  const input: SystemInput = { ...defaultSystemInput(), staticLow: 12, staticHigh: 12, duty: { flow: 108 * M3H, head: 28 } };
-  input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
-  systemId = await createSystem(v, await createProject(v, { name: "Kept search", site: "", description: "" }), "Main", input);
+  // First revision: half the demo file.
+  ({ userId, systemId, libId, csv } = await searchFixture({ demoFile: "nordquay.csv", library: "Kept path check", project: "Kept search", fraction: 0.5 }));
 });
 
 describe("kept revisions", () => {

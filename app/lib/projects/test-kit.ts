@@ -1,0 +1,46 @@
+// Tests only: a search fixture shared by the search tests (search-cache, search-kept). A workspace on
+// the paid plan with a library of part of a demo CSV (invented data, fixtures/demo/) and one system
+// whose duty lies among its curves; CSV text imported through the same path as the mapping page.
+import { readFileSync } from "node:fs";
+import { eq } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { workspaces } from "@db/schema";
+import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries";
+import { workspacesOf } from "../auth/guards.server";
+import { makeMember } from "~/test/harness";
+import { createProject, createSystem } from "./projects.server";
+import { defaultSystemInput, type SystemInput } from "./hydraulics";
+
+export const M3H = 1 / 3600;
+
+/** The viewer as the guards build it on each request (the plan read from the database). */
+export async function viewerOfUser(userId: string): Promise<Viewer> {
+  const ws = (await workspacesOf(userId))[0];
+  return { userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
+}
+
+/** Imports CSV text as a new revision of the library, with the mapping the analysis proposes. */
+export async function importCsvText(v: Viewer, libId: number, text: string, filename = "t.csv") {
+  const uploadId = await storeUpload(v, libId, new File([text], filename, { type: "text/csv" }));
+  const u = await getUpload(v, libId, uploadId);
+  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+}
+
+/**
+ * An admin on the paid plan, a workspace library holding the first `fraction` of the demo file's rows
+ * (one revision), and a system "Main" (12 m static, 150 mm runs, duty 108 m³/h at 28 m).
+ */
+export async function searchFixture(o: { demoFile: string; library: string; project: string; fraction: number }) {
+  const m = await makeMember("admin");
+  await db().update(workspaces).set({ plan: "network" }).where(eq(workspaces.id, m.workspaceId));
+  const v = await viewerOfUser(m.userId);
+  const csv = readFileSync(`fixtures/demo/${o.demoFile}`, "utf8");
+  const libId = await createLibrary(v, { name: o.library, description: "" });
+  const lines = csv.split("\n");
+  await importCsvText(v, libId, lines.slice(0, Math.floor(lines.length * o.fraction)).join("\n"), o.demoFile);
+  await updateLibrary(v, libId, { name: o.library, description: "", visibility: "workspace" });
+  const input: SystemInput = { ...defaultSystemInput(), staticLow: 12, staticHigh: 12, duty: { flow: 108 * M3H, head: 28 } };
+  input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
+  const systemId = await createSystem(v, await createProject(v, { name: o.project, site: "", description: "" }), "Main", input);
+  return { userId: m.userId, viewer: v, libId, systemId, csv };
+}
