@@ -10,6 +10,8 @@
  */
 export const ENCODINGS = ["utf-8", "utf-16le", "utf-16be", "windows-1252"] as const;
 export type Encoding = (typeof ENCODINGS)[number];
+/** The encoding named by a value from a form, a query or saved JSON, if it is one we decode. */
+export const encodingNamed = (x: unknown): Encoding | undefined => (typeof x === "string" && (ENCODINGS as readonly string[]).includes(x) ? (x as Encoding) : undefined);
 
 export interface Decoded {
   text: string;

@@ -114,7 +114,7 @@ export {
 } from "./units-in-headers";
 export { parseNumber } from "./numbers";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
-export { decodeBytes, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
+export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";
 export type { Problem, ProblemCode, Severity } from "./types";
 export { applyCellEdits, csvField, EditRefused, MAX_EDITS, type CellEdit } from "./edit";

@@ -2,15 +2,14 @@
 // user's field and unit per column, layout, defaults, fill-down, run-out policy and encoding; and the
 // fix grid's edited cells. Anything unreadable is an error message, never an exception.
 import * as v from "valibot";
-import { DIAMETER_UNITS, ENCODINGS, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
+import { DIAMETER_UNITS, encodingNamed, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
 
 /** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
 export const impellerUnitOf = (x: unknown): (typeof DIAMETER_UNITS)[number] => DIAMETER_UNITS.find((u) => u === x) ?? "mm";
 
 /** The encoding the user chose, if it is one we decode. */
 export function encodingFromForm(form: FormData): Encoding | undefined {
-  const enc = String(form.get("encoding") ?? "");
-  return (ENCODINGS as readonly string[]).includes(enc) ? (enc as Encoding) : undefined;
+  return encodingNamed(form.get("encoding"));
 }
 
 /** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */

@@ -4,7 +4,7 @@
 // on the server's import path alike.
 import * as v from "valibot";
 import {
-  analyseCsv, curveName, curveNameOfKey, decodeBytes, ENCODINGS, MappingSchema,
+  analyseCsv, curveName, curveNameOfKey, decodeBytes, encodingNamed, MappingSchema,
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
 
@@ -25,8 +25,7 @@ export type FlaggedRow = { line: number; cells: string[]; problems: { index: num
 
 /** The encoding a mapping asks for, if it is a valid one (mappings come from forms and saved JSON). */
 export function encodingOf(mapping: unknown): Encoding | undefined {
-  const e = (mapping as { encoding?: unknown } | null | undefined)?.encoding;
-  return typeof e === "string" && (ENCODINGS as readonly string[]).includes(e) ? (e as Encoding) : undefined;
+  return encodingNamed((mapping as { encoding?: unknown } | null | undefined)?.encoding);
 }
 
 /** The saved mapping of the library when it still fits the file's headers, else null. */
