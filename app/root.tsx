@@ -14,8 +14,9 @@ import type { Route } from "./+types/root";
 import "./app.css";
 import { csrfRefusal } from "~/lib/auth/csrf.server";
 import { getAuth } from "~/lib/auth/session.server";
-import { currentMembership } from "~/lib/auth/guards.server";
+import { membershipFor } from "~/lib/auth/guards.server";
 import { problem } from "~/lib/shared/problem.server";
+import { requestScope } from "~/lib/shared/request-scope.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
 import { databaseTrouble } from "~/lib/shared/health.server";
 // Bodies that declare more than their limit are refused before any action reads them (413); the
@@ -23,6 +24,8 @@ import { databaseTrouble } from "~/lib/shared/health.server";
 import { bodyLimitFor } from "~/lib/shared/body-limits.mjs";
 
 export const middleware: Route.MiddlewareFunction[] = [
+  // One memo for the whole request (session, workspace list): see lib/shared/request-scope.server.ts.
+  ({ request }, next) => requestScope(request, next),
   async ({ request }, next) => {
     ensureOutboxFlusher(); // idempotent: retries unsent mail in the background of each app process
     const url = new URL(request.url);
@@ -65,7 +68,7 @@ export const middleware: Route.MiddlewareFunction[] = [
 export async function loader({ request }: Route.LoaderArgs) {
   const auth = await getAuth(request);
   if (!auth) return { me: null };
-  const { current } = await currentMembership(auth);
+  const { current } = await membershipFor(auth);
   return {
     me: {
       name: auth.user.name || auth.user.email,

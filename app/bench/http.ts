@@ -57,7 +57,9 @@ export async function appServer(
   port: number,
   opts: { accessLog?: boolean } = {},
 ): Promise<{ url: string; pid: number; close: () => Promise<void>; served: { path: string; status: number; ms: number }[] }> {
-  const child = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+  // BENCH_SERVER_NODE_ARGS: extra Node flags for the app server (e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof" to profile it).
+  const nodeArgs = (process.env.BENCH_SERVER_NODE_ARGS ?? "").split(" ").filter(Boolean);
+  const child = spawn(process.execPath, [...nodeArgs, "app/serve.mjs", "build/server/index.js"], {
     cwd: ROOT,
     env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: opts.accessLog ? "1" : "0", APP_URL: `http://127.0.0.1:${port}`, MAIL_FLUSH_INTERVAL_MS: "0" },
     stdio: ["ignore", opts.accessLog ? "pipe" : "ignore", "inherit"],

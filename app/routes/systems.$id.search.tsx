@@ -1,10 +1,10 @@
 import * as v from "valibot";
-import { data, Form, redirect, useLoaderData } from "react-router";
+import { data, Form, Link, redirect, useLoaderData, useLocation } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/auth/guards.server";
-import { addCandidate, addCandidates, listCandidates, MAX_CANDIDATES, MAX_PICKS, PicksSchema, searchForSystem } from "~/lib/projects";
+import { addCandidate, addCandidates, candidateSetIds, MAX_CANDIDATES, MAX_PICKS, PicksSchema, SEARCH_PAGE_ROWS, searchForSystem } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryText } from "~/lib/shared/forms.server";
+import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryId, QueryText } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { toSI } from "~/engine";
@@ -26,6 +26,7 @@ const SearchQuery = v.object({
   maxPower: QueryText(40),
   method: v.fallback(v.array(v.string()), []),
   beyond: QueryFlag,
+  page: QueryId, // 1.. (a page past the last shows the last)
 });
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -47,7 +48,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     allowBeyondCatalogue: query.beyond,
   };
   const viewer = viewerOf(m);
-  const [res, current] = await Promise.all([searchForSystem(viewer, id, filters), listCandidates(viewer, id)]);
+  const [res, onSystem] = await Promise.all([
+    searchForSystem(viewer, id, filters, { page: query.page ?? 1, pageSize: SEARCH_PAGE_ROWS }),
+    candidateSetIds(viewer, id),
+  ]);
+  const already = new Set(onSystem);
   return renderDeep({ // quantities in messages, reasons and "why this rank" in the user's units
     id,
     name: res.system.name,
@@ -77,9 +82,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       library: r.library,
       alsoIn: r.alsoIn,
       verdict: r.verdict,
-      already: current.some((c) => c.curveSetId === r.curveSetId),
+      already: already.has(r.curveSetId),
     })),
-    candidateCount: current.length,
+    paging: res.paging,
+    candidateCount: onSystem.length,
     limits: { candidates: MAX_CANDIDATES, picks: MAX_PICKS },
     canWrite: can(m.role, "project.write"),
     filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
@@ -90,6 +96,15 @@ export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
   const id = readId(params.id);
   const form = await readFormSafe(request);
+  // One row's own "Add" button (`one=<curveSetId>:<method>`): that pump only, whatever else is ticked.
+  if (form.has("one")) {
+    const pick = v.safeParse(PicksSchema, [form.get("one")]);
+    if (!pick.success) throw data({ errors: { one: pick.issues[0].message } }, { status: 400 });
+    const [{ curveSetId, method }] = pick.output;
+    const r = await addCandidate(viewerOf(m), id, curveSetId, { ...DEFAULT_ADJUSTMENT, method });
+    if (!r.ok) return { error: r.reason };
+    throw redirect(`/systems/${id}`);
+  }
   // Several ticked rows ("Add the ticked pumps"), all or nothing, in one transaction.
   if (form.get("intent") === "add-many" || form.has("add")) {
     const picks = v.safeParse(PicksSchema, form.getAll("add"));
@@ -98,7 +113,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (!r.ok) return { error: r.reason };
     throw redirect(`/systems/${id}`);
   }
-  // One row's own "Add" button.
+  // The same as `one`, as two fields (curveSetId, method): kept for scripts that post them.
   const curveSetId = formId(form, "curveSetId");
   const method = form.get("method");
   const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
@@ -158,7 +173,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
       ) : null}
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
-          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · showing the best {d.results.length}
+          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
@@ -186,7 +201,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                 </tr>
               </thead>
               <tbody>
-                {d.results.map((r, i) => (
+                {d.results.map((r) => (
                   <tr key={`${r.curveSetId}-${r.method}`} className="border-t border-slate-100 align-top">
                     {d.canWrite ? (
                       <td className="py-1">
@@ -219,8 +234,8 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         r.already ? (
                           <span className="text-xs text-slate-500">candidate</span>
                         ) : (
-                          // Submits its own small form below the table (the HTML form attribute), not the ticked rows.
-                          <button form={`add-one-${i}`} className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= d.limits.candidates} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
+                          // Adds this row only (the action reads `one` before the ticked `add` rows).
+                          <button name="one" value={`${r.curveSetId}:${r.method}`} className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= d.limits.candidates} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
                             Add
                           </button>
                         )
@@ -242,16 +257,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             ) : null}
           </Form>
         )}
-        {d.canWrite
-          ? d.results.map((r, i) =>
-              r.already ? null : (
-                <Form key={`${r.curveSetId}-${r.method}`} method="post" id={`add-one-${i}`} hidden>
-                  <input type="hidden" name="curveSetId" value={r.curveSetId} />
-                  <input type="hidden" name="method" value={r.method} />
-                </Form>
-              ),
-            )
-          : null}
+        <Pager paging={d.paging} />
       </section>
       {d.locked.length ? (
         <section className="panel">
@@ -271,6 +277,24 @@ export default function Search({ actionData }: Route.ComponentProps) {
       ) : null}
       <SizingCaution />
     </div>
+  );
+}
+
+/** Previous / next page links that keep the filters (plain links: they work without JavaScript). */
+function Pager({ paging }: { paging: { page: number; pages: number } }) {
+  const { search } = useLocation();
+  if (paging.pages <= 1) return null;
+  const href = (page: number) => {
+    const q = new URLSearchParams(search);
+    q.set("page", String(page));
+    return `?${q}`;
+  };
+  return (
+    <nav aria-label="Result pages" className="mt-3 flex items-center gap-3 text-sm">
+      {paging.page > 1 ? <Link to={href(paging.page - 1)} rel="prev">← Previous</Link> : null}
+      <span className="text-slate-600">Page {paging.page} of {paging.pages}</span>
+      {paging.page < paging.pages ? <Link to={href(paging.page + 1)} rel="next">Next →</Link> : null}
+    </nav>
   );
 }
 

@@ -91,6 +91,7 @@ const PROBES: [string, ReturnType<typeof page>][] = [
   ["GET /systems/:id/search", page(searchPage.loader, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }))],
   ["POST /systems/:id/search (add B's curve)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), () => ({ curveSetId: "1" }))],
   ["POST /systems/:id/search (add several, ticked)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), (c) => ({ intent: "add-many", add: `${c.set}:direct` }))],
+  ["POST /systems/:id/search (add one row, `one`)", page(searchPage.action, (c) => `/systems/${c.system}/search`, (c) => ({ id: String(c.system) }), (c) => ({ one: `${c.set}:direct` }))],
   ["GET /selections/:id", page(selectionPage.loader, (c) => `/selections/${c.selection}`, (c) => ({ id: String(c.selection) }))],
   ["GET /selections/:id/export.csv", page(selCsv.loader, (c) => `/selections/${c.selection}/export.csv`, (c) => ({ id: String(c.selection) }))],
   ["GET /selections/:id/export.json", page(selJson.loader, (c) => `/selections/${c.selection}/export.json`, (c) => ({ id: String(c.selection) }))],

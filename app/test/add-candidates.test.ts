@@ -153,6 +153,20 @@ describe("adding several ticked pumps at once", () => {
     expect(await rows()).toEqual([{ curveSetId: own[3], method: "speed" }]);
   });
 
+  test("a row's own Add (`one`) adds that pump only, with its method, whatever else is ticked", async () => {
+    const r = await post([`${own[0]}:direct`, `${own[1]}:direct`], [["one", `${own[4]}:trim`]]);
+    expect(r.status).toBe(302);
+    expect(await rows()).toEqual([{ curveSetId: own[4], method: "trim" }]);
+    const again = await post([], [["one", `${own[4]}:trim`]]);
+    expect(again.status).toBe(200);
+    expect((again.body as { error: string }).error).toMatch(/already a candidate/);
+    for (const bad of ["", "abc", `${own[5]}:magic`, `${own[5]}`, "-1:direct", `${foreign[0]}:direct:x`]) {
+      expect((await post([], [["one", bad]])).status, bad).toBe(400);
+    }
+    expect((await post([], [["one", `${foreign[0]}:direct`]])).status).toBe(404); // another workspace's curve
+    expect(await rows()).toEqual([{ curveSetId: own[4], method: "trim" }]);
+  });
+
   test("a viewer may not add: 403, nothing written", async () => {
     const viewer = await makeMember("viewer", engineer.workspaceId);
     const body = new URLSearchParams([["add", `${own[0]}:direct`], ["intent", "add-many"]]);

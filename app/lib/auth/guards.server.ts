@@ -9,6 +9,7 @@ import { hashSecret } from "./secrets.server";
 import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
+import { oncePerRequest } from "../shared/request-scope.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
 export type Member = Auth & {
@@ -46,13 +47,18 @@ export async function currentMembership(auth: Auth) {
   return { list, current };
 }
 
+/** The root loader and the route's loader of one page read the same list: one query per request scope (see request-scope.server.ts). */
+export function membershipFor(auth: Auth): ReturnType<typeof currentMembership> {
+  return oncePerRequest(`membership:${auth.user.id}:${auth.user.currentWorkspaceId ?? ""}`, () => currentMembership(auth));
+}
+
 /**
  * Signed in, a member of a workspace, and (when given) allowed `permission` there.
  * Not signed in → redirect to sign-in; no workspace → redirect to create one; lacking permission → 403.
  */
 export async function requireMember(request: Request, permission?: Permission): Promise<Member> {
   const auth = await requireUser(request);
-  const { list, current } = await currentMembership(auth);
+  const { list, current } = await membershipFor(auth);
   if (!current) throw redirect("/workspace/new");
   const { role, ...workspace } = current;
   if (permission && !can(role, permission)) {
@@ -107,7 +113,7 @@ export async function requireApi(request: Request, permission: Permission): Prom
   } else {
     const auth = await getAuth(request);
     if (!auth) throw unauthorized();
-    const { current } = await currentMembership(auth);
+    const { current } = await membershipFor(auth);
     if (!current) throw forbidden("You are not a member of any workspace.");
     const { role, ...workspace } = current;
     caller = { userId: auth.user.id, workspace, role, via: "session", scope: "write", units: auth.user.units };

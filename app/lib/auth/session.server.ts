@@ -7,6 +7,7 @@ import { affectedRows, db } from "@db/client.server";
 import { sessions, signInAttempts, users } from "@db/schema";
 import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
+import { oncePerRequest } from "../shared/request-scope.server";
 import { picksOf, unitsOf, type PresetId } from "../shared/units";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
@@ -146,21 +147,25 @@ export type Auth = { user: User; session: Session; refreshCookie?: string };
 
 const cache = new WeakMap<Request, Promise<Auth | null>>();
 
-/** The signed-in user of this request, or null. Memoised per request. */
+/**
+ * The signed-in user of this request, or null. Memoised per request: across the root middleware and
+ * every loader of one page through the request scope (they get Request objects of their own), and on
+ * the Request itself where no scope is open (loaders called directly, as the tests do).
+ */
 export function getAuth(request: Request): Promise<Auth | null> {
   let p = cache.get(request);
   if (!p) {
-    p = (async () => {
-      const cookie = request.headers.get("cookie") ?? "";
-      const sessionId = lucia().readSessionCookie(cookie);
-      if (!sessionId) return null;
-      const { session, user } = await lucia().validateSession(sessionId);
-      if (!session || !user) return null;
-      return { session, user, refreshCookie: session.fresh ? lucia().createSessionCookie(session.id).serialize() : undefined };
-    })();
+    const sessionId = lucia().readSessionCookie(request.headers.get("cookie") ?? "");
+    p = sessionId ? oncePerRequest(`auth:${sessionId}`, () => validate(sessionId)) : Promise.resolve(null);
     cache.set(request, p);
   }
   return p;
+}
+
+async function validate(sessionId: string): Promise<Auth | null> {
+  const { session, user } = await lucia().validateSession(sessionId);
+  if (!session || !user) return null;
+  return { session, user, refreshCookie: session.fresh ? lucia().createSessionCookie(session.id).serialize() : undefined };
 }
 
 export async function endSession(request: Request): Promise<string> {

@@ -11,6 +11,11 @@ export function planOpensShared(plan: WorkspaceInfo["plan"]): boolean {
 
 export type Access = "owner" | "open" | "locked";
 
+/** A candidate's curve stays in view while its library is the workspace's own or a shared one the plan opens (selections keep frozen copies). */
+export function candidateCurveOpen(viewer: Viewer, lib: { workspaceId: number; visibility: string }): boolean {
+  return lib.workspaceId === viewer.workspace.id || (lib.visibility === "shared" && planOpensShared(viewer.workspace.plan));
+}
+
 /** How `viewer` may see `lib`: owner (full; private only for authors), open (shared and the plan allows), locked (listed, no curves), or null (invisible). */
 export function accessTo(viewer: Viewer, lib: { workspaceId: number; visibility: string }): Access | null {
   if (!can(viewer.role, "library.read")) return null;

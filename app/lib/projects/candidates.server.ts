@@ -2,13 +2,13 @@
 // are read by `PicksSchema` and added by `addCandidates` in one transaction. A curve already on the
 // system is skipped; one the viewer may not use (another workspace's library, a shared library the plan
 // does not open) refuses the whole request before anything is written.
-import { eq, inArray } from "drizzle-orm";
+import { and, eq, inArray } from "drizzle-orm";
 import { data } from "react-router";
 import * as v from "valibot";
 import { withTransaction, db } from "@db/client.server";
-import { candidates, curveSets, libraryRevisions, systems } from "@db/schema";
+import { candidates, curveSets, libraries, libraryRevisions, systems } from "@db/schema";
 import { DEFAULT_ADJUSTMENT, type Adjustment } from "./hydraulics";
-import { searchableRevisions, type Viewer } from "../libraries";
+import { candidateCurveOpen, searchableRevisions, type Viewer } from "../libraries";
 import { getSystem, MAX_CANDIDATES } from "./projects.server";
 
 /** At most this many ticked rows in one request (the search shows fewer; anything more is not a person ticking). */
@@ -79,4 +79,21 @@ export async function addCandidates(viewer: Viewer, systemId: number, picks: Pic
     }
     return { ok: true as const, added: fresh.length, skipped };
   });
+}
+
+/**
+ * The curve sets on a system that its candidates list shows (the plan gate as in `listCandidates`), in one
+ * query and without reading their curves: the search page marks these rows and counts them. Nothing for a
+ * system outside the viewer's workspace.
+ */
+export async function candidateSetIds(viewer: Viewer, systemId: number): Promise<number[]> {
+  const rows = await db()
+    .select({ curveSetId: candidates.curveSetId, workspaceId: libraries.workspaceId, visibility: libraries.visibility })
+    .from(candidates)
+    .innerJoin(systems, eq(systems.id, candidates.systemId))
+    .innerJoin(curveSets, eq(curveSets.id, candidates.curveSetId))
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
+    .where(and(eq(candidates.systemId, systemId), eq(systems.workspaceId, viewer.workspace.id)));
+  return rows.filter((r) => candidateCurveOpen(viewer, r)).map((r) => r.curveSetId);
 }

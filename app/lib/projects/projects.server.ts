@@ -21,7 +21,7 @@ import {
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
-import { curvesOfRevisions, planOpensShared, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
+import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
 
 export const MAX_CANDIDATES = 6;
@@ -203,7 +203,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
     .orderBy(asc(candidates.id));
   // The plan gate: a candidate from another workspace's library (added while on the paid plan) shows no
   // curve once the plan no longer opens it, or once its owner stops sharing it. Selections keep their frozen copy.
-  const rows = all.filter((r) => r.libraryWorkspaceId === viewer.workspace.id || (r.libraryVisibility === "shared" && planOpensShared(viewer.workspace.plan)));
+  const rows = all.filter((r) => candidateCurveOpen(viewer, { workspaceId: r.libraryWorkspaceId, visibility: r.libraryVisibility }));
   if (rows.length === 0) return [];
   const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
   return rows

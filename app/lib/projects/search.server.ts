@@ -5,7 +5,7 @@
 // compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
 // filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
 // `searchDuty`, groups the best rows, judges at most SEARCH_EVALUATED of them (verdicts kept per
-// system input) and returns the SEARCH_SHOWN it shows. A new revision, a saved input or a plan that
+// system input) and returns the page of rows asked for (SEARCH_SHOWN by default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that
 // opens or closes libraries is a new key, so it is seen at once; any other process builds the same.
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
@@ -28,7 +28,12 @@ export type SearchFilters = {
 
 /** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
 export const SEARCH_EVALUATED = 80;
+/** Rows returned at once by default (the read API); the search page shows SEARCH_PAGE_ROWS a page. */
 export const SEARCH_SHOWN = 50;
+export const SEARCH_PAGE_ROWS = 25;
+
+/** Which slice of the judged rows a request returns: page 1.. of `pageSize` rows (out-of-range pages clamp to the nearest). */
+export type SearchPaging = { page: number; pages: number; pageSize: number; total: number };
 
 type OpenRevision = { libraryId: number; name: string; revisionId: number; own?: boolean };
 /** A curve set with the revision it came from (library name read per request: names may change, revisions do not). */
@@ -102,19 +107,21 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
 }
 
 /**
- * Verdicts per system input: a verdict is a pure function of the system document, the curve set
- * (immutable) and the method, so repeat views and filter changes of one system reuse them.
- * Keyed by the stored input JSON; a saved change is a new key. Least recently used dropped first.
+ * The system's evaluation and the verdicts per system input: both are pure functions of the system
+ * document (and, for a verdict, the immutable curve set and the method), so repeat views and filter
+ * changes of one system reuse them. Keyed by the stored input JSON; a saved change is a new key.
+ * Least recently used dropped first.
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
-const verdictCache = new Map<string, Map<string, Verdict | null>>();
-function verdictsFor(inputJson: string): Map<string, Verdict | null> {
-  let m = verdictCache.get(inputJson);
-  if (m) verdictCache.delete(inputJson);
-  else m = new Map();
-  verdictCache.set(inputJson, m);
+type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Verdict | null> };
+const verdictCache = new Map<string, SystemWork>();
+function workFor(inputJson: string, input: SystemInput): SystemWork {
+  let w = verdictCache.get(inputJson);
+  if (w) verdictCache.delete(inputJson);
+  else w = { evaluation: evaluateSystem(input), verdicts: new Map() }; // throws for inputs the engine cannot evaluate: nothing kept
+  verdictCache.set(inputJson, w);
   while (verdictCache.size > VERDICT_SYSTEMS_LIMIT) verdictCache.delete(verdictCache.keys().next().value!);
-  return m;
+  return w;
 }
 
 /** For tests: how many prepared indexes this process keeps, and a way to drop every cache. */
@@ -147,17 +154,20 @@ function curveKey(s: LibraryCurveSet): string {
  * the verdict of the pump as offered on the system's band; outside-catalogue rows only on request.
  * `opts.uncached` builds the index afresh from `curvesOfRevisions` with no kept verdicts (tests compare both paths).
  */
-export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean } = {}) {
+export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
-  if (!system.input.duty) return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: "Set a duty point (flow and head) first." };
-  let evaluation: ReturnType<typeof evaluateSystem>;
+  const pageSize = opts.pageSize ?? SEARCH_SHOWN;
+  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as SearchPaging };
+  if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
+  let work: SystemWork;
   try {
-    evaluation = evaluateSystem(system.input);
+    work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson, system.input);
   } catch (e) {
     // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
     // user's to fix, not a server fault: the page says why.
-    return { system, results: [], locked, stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
+    return { system, results: [], locked, ...none, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
   }
+  const { evaluation, verdicts } = work;
   const prepared = opts.uncached ? await buildPreparedSearch(open, filters) : await preparedSearch(open, filters);
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
   const own = new Set(open.filter((o) => o.own).map((o) => o.libraryId));
@@ -183,7 +193,6 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
   let outsideCatalogue = 0;
   const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null }[] = [];
-  const verdicts = opts.uncached ? new Map<string, Verdict | null>() : verdictsFor(JSON.stringify(system.input));
   for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
     const method = g.row.method === "direct" ? "none" : g.row.method;
     const vk = `${g.set.id}#${method}`;
@@ -205,17 +214,22 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   }
   // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
   kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
-  const shown = kept.slice(0, SEARCH_SHOWN);
-  const notes = shown.map((k, i) => {
-    if (i === 0 || verdictClass(k.verdict) === verdictClass(shown[i - 1].verdict)) return null;
-    const above = shown[i - 1].verdict;
+  // The page asked for: ranks and "why this rank" run over every row up to its end, so they read the same on every page.
+  const pages = Math.max(1, Math.ceil(kept.length / pageSize));
+  const asked = opts.page === undefined || Number.isNaN(opts.page) ? 1 : Math.trunc(opts.page); // ±Infinity clamp to the ends
+  const page = Math.min(Math.max(1, asked), pages);
+  const first = (page - 1) * pageSize;
+  const upTo = kept.slice(0, first + pageSize);
+  const notes = upTo.map((k, i) => {
+    if (i === 0 || verdictClass(k.verdict) === verdictClass(upTo[i - 1].verdict)) return null;
+    const above = upTo[i - 1].verdict;
     return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
   });
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
-  const rows = shown.map((k) => ({ ...k.row }));
+  const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
-  const results = shown.map(({ set: s, libraries, verdict }, i) => ({
-    ...rows[i],
+  const results = upTo.slice(first).map(({ set: s, libraries, verdict }, j) => ({
+    ...rows[first + j],
     curveSetId: s.id,
     modelId: s.modelId,
     model: s.model,
@@ -227,7 +241,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     alsoIn: libraries.filter((l) => l !== (libraryName.get(s.revisionId) ?? "")),
     verdict,
   }));
-  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, message: null as string | null };
+  const paging: SearchPaging = { page, pages, pageSize, total: kept.length };
+  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
