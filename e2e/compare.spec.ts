@@ -104,4 +104,25 @@ test.describe("without JavaScript", () => {
     await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
     await expect(page.getByRole("table", { name: "Candidates compared" }).locator("thead th")).toHaveCount(3);
   });
+
+  test("Without JavaScript a row's own Add adds only its pump, though another row is ticked", async ({ page }) => {
+    await signIn(page, "engineer@kestrel.example");
+    const { systemPath } = await newSystem(page, "Own add");
+    await page.getByLabel("Flow").first().fill("36");
+    await page.getByLabel("Head").first().fill("16");
+    await page.getByRole("button", { name: "Save system" }).click();
+    await expect(page.getByText("System saved.")).toBeVisible();
+
+    await page.goto(`${systemPath}/search`);
+    await expect(page.getByTestId("search-stats")).toContainText(/showing #1–\d+ of the \d+ judged/);
+    const rows = page.getByRole("table", { name: "Ranked pumps" }).locator("tbody tr");
+    await rows.nth(1).getByRole("checkbox").check();
+    const chosen = await rows.first().getByRole("button", { name: /^Add / }).getAttribute("aria-label");
+    await rows.first().getByRole("button", { name: /^Add / }).click();
+    await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
+    const compared = page.getByRole("table", { name: "Candidates compared" });
+    await expect(compared.locator("thead th")).toHaveCount(2); // the row's pump only, not the ticked one
+    expect(chosen).toMatch(/^Add .+ as a candidate$/);
+    await expect(compared.locator("thead th").nth(1)).toContainText(chosen!.replace(/^Add (\S+).*$/, "$1"));
+  });
 });

@@ -21,7 +21,8 @@ import { defaultSystemInput, evaluateSystem } from "~/lib/projects/hydraulics";
 import { searchDuty } from "~/engine";
 import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 import { makeMember } from "~/test/harness";
-import { appServer, bigLibraryCsv, timed } from "./http";
+import { appServer, timed } from "./http";
+import { bigLibraryCsv } from "~/test/big-library";
 import { runAsScript } from "./run-script";
 
 const RUNS = Number(process.env.BENCH_SEARCH_RUNS ?? 30);

@@ -15,6 +15,7 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep } from "~/lib/shared/units";
+import { pageHref } from "~/lib/projects/search-view";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -284,11 +285,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
 function Pager({ paging }: { paging: { page: number; pages: number } }) {
   const { search } = useLocation();
   if (paging.pages <= 1) return null;
-  const href = (page: number) => {
-    const q = new URLSearchParams(search);
-    q.set("page", String(page));
-    return `?${q}`;
-  };
+  const href = (page: number) => pageHref(search, page);
   return (
     <nav aria-label="Result pages" className="mt-3 flex items-center gap-3 text-sm">
       {paging.page > 1 ? <Link to={href(paging.page - 1)} rel="prev">← Previous</Link> : null}
