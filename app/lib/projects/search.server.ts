@@ -4,9 +4,10 @@
 // sets and the engine's prepared index over them are read and built once per app process and kept
 // compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
 // filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
-// `searchDuty`, groups the best rows, judges at most SEARCH_EVALUATED of them (verdicts kept per
-// system input) and returns the page of rows asked for (SEARCH_SHOWN by default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that
-// opens or closes libraries is a new key, so it is seen at once; any other process builds the same.
+// `searchDuty`, groups the best rows, judges at most SEARCH_EVALUATED of them (the system's evaluation
+// and its verdicts kept per system input) and returns the page of rows asked for (SEARCH_SHOWN by
+// default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that opens or closes
+// libraries is a new key, so it is seen at once; any other process builds the same.
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
