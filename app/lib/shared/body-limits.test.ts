@@ -43,7 +43,10 @@ test("the root middleware refuses a declared body one byte over the route's limi
     });
     const next = async () => ((reached = true), new Response("ok"));
     try {
-      await (middleware[0] as unknown as (a: unknown, n: () => Promise<Response>) => Promise<Response>)({ request, params: {}, context: {} }, next);
+      // Every root middleware in order, as React Router runs them (the request scope first).
+      type Mw = (a: unknown, n: () => Promise<Response>) => Promise<Response>;
+      const chain = (middleware as unknown as Mw[]).reduceRight<() => Promise<Response>>((n, mw) => () => mw({ request, params: {}, context: {} }, n), next);
+      await chain();
       return reached ? "passed" : "stopped";
     } catch (e) {
       const status = (e as { init?: { status?: number }; status?: number }).init?.status ?? (e as { status?: number }).status;
