@@ -229,19 +229,10 @@ export default function LibraryPage() {
                   />
                   <details>
                     <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
-                    {d.curves.map((c) => (
-                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}`}>
-                        <caption className="text-left font-semibold">{renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}</caption>
-                        <thead className="text-left text-slate-600">
-                          <tr>
-                            <th>Flow</th>
-                            <th>Head</th>
-                            <th>Efficiency</th>
-                            <th>Shaft power</th>
-                            <th>NPSHr</th>
-                          </tr>
-                        </thead>
-                        <tbody>
+                    {d.curves.map((c) => {
+                      const label = renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem);
+                      return (
+                        <ListTable key={c.id} head={["Flow", "Head", "Efficiency", "Shaft power", "NPSHr"]} small label={`Points of ${d.modelName} ${label}`} caption={label}>
                           {c.points.map((p, i) => (
                             <tr key={i} className="border-t border-slate-100">
                               <td>{fmtFlow(d.unitSystem, p.flow)}</td>
@@ -251,9 +242,9 @@ export default function LibraryPage() {
                               <td>{p.npshr == null ? "—" : fmtHead(d.unitSystem, p.npshr)}</td>
                             </tr>
                           ))}
-                        </tbody>
-                      </table>
-                    ))}
+                        </ListTable>
+                      );
+                    })}
                   </details>
                 </div>
               </div>

@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
@@ -9,7 +9,8 @@ import { invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { ListTable } from "~/components/ListTable";
+import { useFormResult } from "~/components/useFormResult";
+import { ListTable, NameCell } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
 
@@ -34,8 +35,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function Libraries() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>();
-  const errors = (a?.errors ?? {}) as Record<string, string>;
+  const { errors } = useFormResult();
   const own = d.list.filter((l) => l.access === "owner");
   const shared = d.list.filter((l) => l.access !== "owner");
   return (
@@ -77,12 +77,9 @@ function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<t
     <ListTable head={["Library", "Owner", "Models", "Curves", "Revision", "Access"]}>
       {list.map((l) => (
         <tr key={l.id} className="border-t border-slate-100 align-top">
-          <td className="py-1">
-            <a href={`/libraries/${l.id}`} className="font-semibold">
-              {l.name}
-            </a>
+          <NameCell href={`/libraries/${l.id}`} name={l.name}>
             {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
-          </td>
+          </NameCell>
           <td>{l.owner}</td>
           <td>{l.modelCount}</td>
           <td>{l.curveCount}</td>

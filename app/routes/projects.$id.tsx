@@ -15,7 +15,7 @@ import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
 import { renderDeep } from "~/lib/shared/units";
 import { fmtDate } from "~/lib/shared/format";
-import { ListTable } from "~/components/ListTable";
+import { ListTable, NameCell } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -97,11 +97,7 @@ export default function ProjectPage() {
           <ListTable head={["System", "Kind", "Duty"]}>
             {d.systems.map((s) => (
               <tr key={s.id} className="border-t border-slate-100">
-                <td className="py-1">
-                  <a href={`/systems/${s.id}`} className="font-semibold">
-                    {s.name}
-                  </a>
-                </td>
+                <NameCell href={`/systems/${s.id}`} name={s.name} />
                 <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
                 <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
               </tr>
