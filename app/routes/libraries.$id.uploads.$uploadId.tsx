@@ -19,7 +19,7 @@ import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { renderDeep, type UnitChoice } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
@@ -108,15 +108,13 @@ export default function UploadPreview() {
   const bad = d.stats.curveSets - d.stats.curveSetsOk;
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${l.lib.id}`, l.lib.name]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Map and check: {l.upload.filename}</h1>
+      <PageHead trail={[["/libraries", "Pump libraries"], [`/libraries/${l.lib.id}`, l.lib.name]]} title={`Map and check: ${l.upload.filename}`}>
         <p className="text-xs text-slate-500">
           {fmtBytes(l.upload.size)} · SHA-256 {l.upload.sha256.slice(0, 16)}… · delimiter “{d.sniff.delimiter}” · decimal{" "}
           {d.sniff.decimalComma ? "comma" : "point"} · header on line {d.sniff.headerLine}
           {d.sniff.hadBom ? " · byte-order mark removed" : ""}
         </p>
-      </div>
+      </PageHead>
       <FormError error={a?.error} />
       {l.correctedFrom ? (
         <Notice>

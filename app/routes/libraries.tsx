@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { createLibrary, listLibraries } from "~/lib/libraries";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, readForm } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -22,7 +22,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 const Schema = v.object({
   name: Name("a library name"),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(1000, "Keep the description under 1000 characters.")),
+  description: FreeText("description", 1000),
 });
 
 export async function action({ request }: Route.ActionArgs) {

@@ -10,7 +10,7 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
 import { renderDeep } from "~/lib/shared/units";
@@ -76,16 +76,19 @@ export default function ProjectPage() {
   const { errors, notice } = useFormResult();
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/projects", "Projects"]]} />
-        <h1 className="text-2xl font-bold text-brand-900">
-          {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
-        </h1>
+      <PageHead
+        trail={[["/projects", "Projects"]]}
+        title={
+          <>
+            {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
+          </>
+        }
+      >
         <p className="text-sm text-slate-600">
           {d.project.site}
           {d.project.description ? ` · ${d.project.description}` : ""}
         </p>
-      </div>
+      </PageHead>
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
       {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />

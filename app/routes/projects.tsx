@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { createProject, listProjects } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { useFormResult } from "~/components/useFormResult";
@@ -21,8 +21,8 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 const Schema = v.object({
   name: Name("a project name", 160),
-  site: v.pipe(v.string(), v.trim(), v.maxLength(200, "Keep the site under 200 characters.")),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(2000, "Keep the description under 2000 characters.")),
+  site: FreeText("site", 200),
+  description: FreeText("description", 2000),
 });
 
 export async function action({ request }: Route.ActionArgs) {
