@@ -76,3 +76,12 @@ export function Card({ title, children, narrow }: { title: string; children: Rea
     </section>
   );
 }
+
+/** The options of a select: one per value, shown as `label(value)` (the value itself when no label is given). */
+export function Options<T extends string>({ values, label = (x) => x }: { values: readonly T[]; label?: (value: T) => ReactNode }) {
+  return values.map((x) => (
+    <option key={x} value={x}>
+      {label(x)}
+    </option>
+  ));
+}

@@ -13,7 +13,7 @@ import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm } from
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
-import { FormError, Notice } from "~/components/forms";
+import { FormError, Notice, Options } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
@@ -154,12 +154,10 @@ export default function UploadPreview() {
             <label className="flex items-center gap-2">
               Text encoding
               <select name="encoding" defaultValue={d.mapping.encoding ?? d.encoding.name} className="field w-auto" data-testid="encoding">
-                {ENCODINGS.map((e) => (
-                  <option key={e} value={e}>
-                    {ENCODING_LABEL[e]}
-                    {e === d.encoding.name && d.encoding.how !== "chosen" ? (d.encoding.how === "fallback" ? " (not valid UTF-8: guessed)" : " (detected)") : ""}
-                  </option>
-                ))}
+                <Options
+                  values={ENCODINGS}
+                  label={(e) => `${ENCODING_LABEL[e]}${e === d.encoding.name && d.encoding.how !== "chosen" ? (d.encoding.how === "fallback" ? " (not valid UTF-8: guessed)" : " (detected)") : ""}`}
+                />
               </select>
             </label>
             <label className="flex items-center gap-2">
@@ -214,21 +212,13 @@ export default function UploadPreview() {
                   <td className="text-xs text-slate-600">{(d.samples[c.index] ?? []).join(" · ")}</td>
                   <td>
                     <select name={`field.${c.index}`} defaultValue={c.field} className="field w-auto py-0.5" aria-label={`Meaning of ${c.header}`}>
-                      {FIELDS.map((f) => (
-                        <option key={f} value={f}>
-                          {FIELD_LABEL[f]}
-                        </option>
-                      ))}
+                      <Options values={FIELDS} label={(f) => FIELD_LABEL[f]} />
                     </select>
                   </td>
                   <td>
                     {numeric ? (
                       <select name={`unit.${c.index}`} defaultValue={c.unit ?? ""} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
-                        {(UNITS_BY_FIELD[c.field as NumericField] as readonly string[]).map((u) => (
-                          <option key={u} value={u}>
-                            {u}
-                          </option>
-                        ))}
+                        <Options values={UNITS_BY_FIELD[c.field as NumericField] as readonly string[]} />
                       </select>
                     ) : (
                       <span className="text-slate-400">—</span>
