@@ -6,7 +6,7 @@
 import { spawn, spawnSync } from "node:child_process";
 import { cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
-import { DATA_ROOT, createDatabase, ensureDebianPackages, freePort, pidAlive, ping } from "./mariadb.mjs";
+import { DATA_ROOT, createDatabase, ensureDebianPackages, freePort, initDataDir, pidAlive, ping, serverArgs } from "./mariadb.mjs";
 
 const log = (msg) => process.stderr.write(`[galera] ${msg}\n`);
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
@@ -60,33 +60,9 @@ async function stopNode(node, { kill = false } = {}) {
 }
 
 async function startNode(node, { bootstrap, clusterAddress, recover = false }) {
-  if (!existsSync(path.join(node.dir, "mysql"))) {
-    rmSync(node.dir, { recursive: true, force: true });
-    mkdirSync(node.dir, { recursive: true });
-    const r = spawnSync(
-      which("mariadb-install-db"),
-      ["--no-defaults", `--datadir=${node.dir}`, "--user=root", "--auth-root-authentication-method=socket", "--skip-test-db"],
-      { encoding: "utf8" },
-    );
-    if (r.status !== 0) throw new Error(`mariadb-install-db failed for ${node.name}:\n${r.stderr}`);
-  }
+  initDataDir(node.dir, node.name);
   const args = [
-    "--no-defaults",
-    "--user=root",
-    `--datadir=${node.dir}`,
-    `--socket=${node.socket}`,
-    `--pid-file=${node.pidFile}`,
-    `--port=${node.port}`,
-    "--bind-address=127.0.0.1",
-    "--skip-networking=0",
-    "--skip-name-resolve",
-    `--log-error=${node.logFile}`,
-    "--character-set-server=utf8mb4",
-    "--collation-server=utf8mb4_unicode_ci",
-    "--innodb-buffer-pool-size=128M",
-    // Uploads and tracer pictures are stored whole (up to 20 MB): the default 16 MB packet refused them.
-    "--max-allowed-packet=64M",
-    "--innodb-flush-log-at-trx-commit=2",
+    ...serverArgs({ ...node, bufferPool: "128M" }),
     // What Galera needs: row-based replication, InnoDB, interleaved auto-increment locks.
     "--binlog-format=ROW",
     "--default-storage-engine=InnoDB",

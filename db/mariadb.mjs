@@ -167,6 +167,42 @@ const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
  * Starts (or reuses) this checkout's mariadbd on loopback, on a port of its own (see chooseDbPort).
  * Returns { socket, port, started, stop() } — stop() only stops a server this call started.
  */
+/** Makes a fresh data directory with the system tables (mariadb-install-db) unless `dir` holds one; true when it did. */
+export function initDataDir(dir, what = "") {
+  if (existsSync(path.join(dir, "mysql"))) return false;
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const r = spawnSync(
+    which("mariadb-install-db") ?? "mariadb-install-db",
+    ["--no-defaults", `--datadir=${dir}`, "--user=root", "--auth-root-authentication-method=socket", "--skip-test-db"],
+    { encoding: "utf8" },
+  );
+  if (r.status !== 0) throw new Error(`mariadb-install-db failed${what ? ` for ${what}` : ""}:\n${r.stdout}\n${r.stderr}`);
+  return true;
+}
+
+/** The options every server here starts with (the local one and each Galera node): its files, loopback port, text and packet size. */
+export function serverArgs({ dir, socket, pidFile, port, logFile, bufferPool }) {
+  return [
+    "--no-defaults",
+    "--user=root",
+    `--datadir=${dir}`,
+    `--socket=${socket}`,
+    `--pid-file=${pidFile}`,
+    `--port=${port}`,
+    "--bind-address=127.0.0.1",
+    "--skip-networking=0",
+    "--skip-name-resolve",
+    `--log-error=${logFile}`,
+    "--character-set-server=utf8mb4",
+    "--collation-server=utf8mb4_unicode_ci",
+    `--innodb-buffer-pool-size=${bufferPool}`,
+    // Uploads and tracer pictures are stored whole (up to 20 MB): the default 16 MB packet refused them.
+    "--max-allowed-packet=64M",
+    "--innodb-flush-log-at-trx-commit=2",
+  ];
+}
+
 export async function startLocalServer() {
   ensureMariadbInstalled();
   const p = localServerPaths();
@@ -177,36 +213,8 @@ export async function startLocalServer() {
     return { ...p, port, started: false, stop: async () => {} };
   }
   const port = await chooseDbPort();
-  if (!existsSync(path.join(p.dir, "mysql"))) {
-    log(`initialising data directory ${path.relative(ROOT, p.dir) || p.dir}`);
-    rmSync(p.dir, { recursive: true, force: true });
-    mkdirSync(p.dir, { recursive: true });
-    const r = spawnSync(
-      which("mariadb-install-db") ?? "mariadb-install-db",
-      ["--no-defaults", `--datadir=${p.dir}`, "--user=root", "--auth-root-authentication-method=socket", "--skip-test-db"],
-      { encoding: "utf8" },
-    );
-    if (r.status !== 0) throw new Error(`mariadb-install-db failed:\n${r.stdout}\n${r.stderr}`);
-  }
-  const args = [
-    "--no-defaults",
-    "--user=root",
-    `--datadir=${p.dir}`,
-    `--socket=${p.socket}`,
-    `--pid-file=${p.pidFile}`,
-    `--port=${port}`,
-    "--bind-address=127.0.0.1",
-    "--skip-networking=0",
-    "--skip-name-resolve",
-    `--log-error=${p.logFile}`,
-    "--character-set-server=utf8mb4",
-    "--collation-server=utf8mb4_unicode_ci",
-    "--local-infile=1",
-    "--innodb-buffer-pool-size=256M",
-    // Uploads and tracer pictures are stored whole (up to 20 MB): the default 16 MB packet refused them.
-    "--max-allowed-packet=64M",
-    "--innodb-flush-log-at-trx-commit=2",
-  ];
+  if (initDataDir(p.dir)) log(`initialised data directory ${path.relative(ROOT, p.dir) || p.dir}`);
+  const args = [...serverArgs({ ...p, port, bufferPool: "256M" }), "--local-infile=1"];
   const child = spawn(which("mariadbd"), args, { stdio: "ignore", detached: true });
   child.unref();
   for (let i = 0; i < 150; i++) {

@@ -1,4 +1,5 @@
 // The /api page's section on the systems read API (GET /api/v1/systems/:id and …/search).
+import { DocTable } from "./DocTable";
 
 const VERDICTS: [string, string][] = [
   ["meets", "The operating flow is within the duty's tolerance (by default −0 % / +10 % of the duty flow; settable per system)."],
@@ -27,26 +28,8 @@ const SEARCH_FIELDS: [string, string][] = [
   ["reason, warnings", "why the result ranks where it does, in words; cautions (e.g. trim is approximate)"],
 ];
 
-function FieldTable({ rows }: { rows: [string, string][] }) {
-  return (
-    <table className="w-full text-left text-sm">
-      <thead>
-        <tr className="border-b border-slate-200">
-          <th className="py-1 pr-4">field</th>
-          <th className="py-1">meaning (SI units)</th>
-        </tr>
-      </thead>
-      <tbody>
-        {rows.map(([f, what]) => (
-          <tr key={f} className="border-b border-slate-100 align-top">
-            <td className="py-1 pr-4 font-mono text-xs">{f}</td>
-            <td className="py-1">{what}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
-  );
-}
+const FIELD_HEAD = ["field", "meaning (SI units)"];
+const FIELD_CELLS = ["font-mono text-xs"];
 
 export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => React.ReactNode }) {
   return (
@@ -59,25 +42,16 @@ export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => Re
       </p>
       <h3 className="font-semibold">GET /api/v1/systems/:id</h3>
       <p className="text-sm text-slate-700">The stored system evaluated with its candidates: the same view as the live preview.</p>
-      <FieldTable rows={SYSTEM_FIELDS} />
+      <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SYSTEM_FIELDS} />
       <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed]</h3>
       <p className="text-sm text-slate-700">
         Pumps from the libraries open to your workspace that meet the system's stored duty, ranked:{" "}
         <code>{"{ duty, message, stats, results: [...] }"}</code>. Without a duty, <code>results</code> is empty and{" "}
         <code>message</code> says why; an unknown <code>method</code> is a 400.
       </p>
-      <FieldTable rows={SEARCH_FIELDS} />
+      <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SEARCH_FIELDS} />
       <h3 className="font-semibold">Verdict statuses</h3>
-      <table className="w-full text-left text-sm">
-        <tbody>
-          {VERDICTS.map(([s, what]) => (
-            <tr key={s} className="border-b border-slate-100 align-top">
-              <td className="py-1 pr-4 font-mono text-xs">{s}</td>
-              <td className="py-1">{what}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <DocTable cells={FIELD_CELLS} rows={VERDICTS} />
       <Code>{`curl -sS https://<your Dutymark address>/api/v1/systems/42/search?method=speed \\
   -H 'Authorization: Bearer <token>'`}</Code>
       <p className="text-xs text-slate-600">

@@ -1,13 +1,11 @@
 import type { ReactNode } from "react";
 
+/** A labelled input with its unit, hint or error; other props (defaultValue, autoComplete, required, …) go to the input. */
 export function Field({
   label,
   name,
   type = "text",
   error,
-  defaultValue,
-  autoComplete,
-  required,
   unit,
   hint,
   ...rest
@@ -34,9 +32,6 @@ export function Field({
         id={id}
         name={name}
         type={type}
-        defaultValue={defaultValue}
-        autoComplete={autoComplete}
-        required={required}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-err` : hint ? `${id}-hint` : undefined}
         className="field"
@@ -80,4 +75,13 @@ export function Card({ title, children, narrow }: { title: string; children: Rea
       {children}
     </section>
   );
+}
+
+/** The options of a select: one per value, shown as `label(value)` (the value itself when no label is given). */
+export function Options<T extends string>({ values, label = (x) => x }: { values: readonly T[]; label?: (value: T) => ReactNode }) {
+  return values.map((x) => (
+    <option key={x} value={x}>
+      {label(x)}
+    </option>
+  ));
 }

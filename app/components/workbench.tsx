@@ -7,6 +7,7 @@ import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } fro
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
+import { ListTable } from "./ListTable";
 
 type Cand = WorkbenchView["candidates"][number];
 
@@ -67,38 +68,30 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
   if (!ev) return null;
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Pipe runs at the duty flow">
-        <caption className="text-left text-xs text-slate-600">Each run at {fmtFlow(unitSystem, ev.dutyFlow)} (the duty flow), new pipe</caption>
-        <thead className="text-left text-slate-600">
-          <tr>
-            <th className="py-1">Run</th>
-            <th>Velocity</th>
-            <th>Re</th>
-            <th>f (Darcy)</th>
-            <th>Regime</th>
-            <th>Loss</th>
+      <ListTable
+        head={["Run", "Velocity", "Re", "f (Darcy)", "Regime", "Loss"]}
+        className=""
+        label="Pipe runs at the duty flow"
+        caption={`Each run at ${fmtFlow(unitSystem, ev.dutyFlow)} (the duty flow), new pipe`}
+      >
+        {ev.runs.map((r, i) => (
+          <tr key={i} className="border-t border-slate-100 align-top">
+            <td className="py-1">
+              {r.name} <span className="text-xs text-slate-500">({r.side})</span>
+              {r.warnings.map((w, j) => (
+                <div key={j} className="text-xs text-duty-ink">
+                  ▲ {w}
+                </div>
+              ))}
+            </td>
+            <td>{fmtQ(unitSystem, "velocity", r.velocity)}</td>
+            <td>{r.reynolds.toExponential(2)}</td>
+            <td>{r.frictionFactor.toFixed(4)}</td>
+            <td>{r.regime}</td>
+            <td>{fmtHead(unitSystem, r.headLoss)}</td>
           </tr>
-        </thead>
-        <tbody>
-          {ev.runs.map((r, i) => (
-            <tr key={i} className="border-t border-slate-100 align-top">
-              <td className="py-1">
-                {r.name} <span className="text-xs text-slate-500">({r.side})</span>
-                {r.warnings.map((w, j) => (
-                  <div key={j} className="text-xs text-duty-ink">
-                    ▲ {w}
-                  </div>
-                ))}
-              </td>
-              <td>{fmtQ(unitSystem, "velocity", r.velocity)}</td>
-              <td>{r.reynolds.toExponential(2)}</td>
-              <td>{r.frictionFactor.toFixed(4)}</td>
-              <td>{r.regime}</td>
-              <td>{fmtHead(unitSystem, r.headLoss)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+        ))}
+      </ListTable>
     </div>
   );
 }

@@ -175,6 +175,13 @@ function checkDuty(duty: { flow: number; head: number }) {
   return { qd: requirePositive("duty.flow", duty.flow), hd: requirePositive("duty.head", duty.head) };
 }
 
+type NoRatio = Exclude<RatioSolution["status"], "ok">;
+
+/** The answer when no ratio in the limits meets the duty, with the message for its reason. */
+function noRatio(status: NoRatio, messages: Record<NoRatio, string>): RatioSolution {
+  return { status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [], message: messages[status] };
+}
+
 /**
  * Speed ratio that puts the curve through the duty point (flow, head on the system curve).
  * @param curve pump curve (prepared or raw; SI)
@@ -183,11 +190,7 @@ function checkDuty(duty: { flow: number; head: number }) {
  * @param limits.min smallest speed ratio allowed (dimensionless; default 0.3)
  * @param limits.max largest speed ratio allowed (dimensionless; default 1.0)
  */
-export function speedForDuty(
-  curve: PumpCurve | PumpCurveInput,
-  duty: { flow: number; head: number },
-  limits: { min?: number; max?: number } = {},
-): RatioSolution {
+export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: number; head: number }, limits: { min?: number; max?: number } = {}): RatioSolution {
   const c = ensurePumpCurve(curve);
   const { qd, hd } = checkDuty(duty);
   const lo = requirePositive("limits.min", limits.min ?? 0.3);
@@ -195,10 +198,11 @@ export function speedForDuty(
   if (lo > hi) throw new EngineInputError("limits.min", "must not exceed limits.max");
   const r = solveRatio(c, qd, hd, 1, lo, hi);
   if (r.ratio === null) {
-    return { status: r.status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [],
-      message: r.status === "duty-above-curve" ? "duty head is above the curve even at the highest allowed speed"
-        : r.status === "outside-curve" ? "duty flow falls outside the curve at every allowed speed"
-        : "duty needs a speed below the lowest allowed" };
+    return noRatio(r.status, {
+      "duty-above-curve": "duty head is above the curve even at the highest allowed speed",
+      "outside-curve": "duty flow falls outside the curve at every allowed speed",
+      "duty-below-limit": "duty needs a speed below the lowest allowed",
+    });
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);
@@ -219,11 +223,7 @@ function scaleWarningsSpeed(r: number): EngineWarning[] {
  * @param options.law trim law "linear" | "square" (unitless; default "linear")
  * @param options.minRatio smallest diameter ratio searched (dimensionless; default 0.5)
  */
-export function trimForDuty(
-  curve: PumpCurve | PumpCurveInput,
-  duty: { flow: number; head: number },
-  options: { law?: TrimLaw; minRatio?: number } = {},
-): RatioSolution {
+export function trimForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: number; head: number }, options: { law?: TrimLaw; minRatio?: number } = {}): RatioSolution {
   const c = ensurePumpCurve(curve);
   const { qd, hd } = checkDuty(duty);
   const law = options.law ?? "linear";
@@ -231,10 +231,11 @@ export function trimForDuty(
   const lo = requirePositive("options.minRatio", options.minRatio ?? 0.5);
   const r = solveRatio(c, qd, hd, k, Math.min(lo, 1), 1);
   if (r.ratio === null) {
-    return { status: r.status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [],
-      message: r.status === "duty-above-curve" ? "duty head is above the full-diameter curve: trimming cannot help"
-        : r.status === "outside-curve" ? "duty flow falls outside the curve at every trim"
-        : "duty needs a trim beyond the searched range" };
+    return noRatio(r.status, {
+      "duty-above-curve": "duty head is above the full-diameter curve: trimming cannot help",
+      "outside-curve": "duty flow falls outside the curve at every trim",
+      "duty-below-limit": "duty needs a trim beyond the searched range",
+    });
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,

@@ -3,6 +3,7 @@ import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api/schemas";
 import { REQUEST_SCHEMAS, UNIT_SUFFIXES, calculatorCorrelations, describeRequest } from "~/lib/calc-api/docs";
 import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
+import { DocTable } from "~/components/DocTable";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
@@ -33,6 +34,8 @@ Content-Type: application/problem+json
     { "field": "segments[0].diameter_m", "message": "must be greater than 0 m" }
   ]
 }`;
+
+const DIMENSIONLESS = "dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness";
 
 const ACCOUNT_ENDPOINTS: [string, string, string][] = [
   ["GET /api/v1/me", "workspace.read", "Who the token speaks for: user id, workspace, role, token scope."],
@@ -76,29 +79,12 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
 
       <section id="units" className="panel space-y-2">
         <h2 className="text-xl font-semibold">Units in field names</h2>
-        <table className="w-full text-left text-sm">
-          <thead>
-            <tr className="border-b border-slate-200">
-              <th className="py-1 pr-4">suffix</th>
-              <th className="py-1 pr-4">unit</th>
-              <th className="py-1">used for</th>
-            </tr>
-          </thead>
-          <tbody>
-            {UNIT_SUFFIXES.map((u) => (
-              <tr key={u.suffix} className="border-b border-slate-100">
-                <td className="py-1 pr-4 font-mono">{u.suffix}</td>
-                <td className="py-1 pr-4">{u.unit}</td>
-                <td className="py-1">{u.what}</td>
-              </tr>
-            ))}
-            <tr className="border-b border-slate-100">
-              <td className="py-1 pr-4 font-mono">(none)</td>
-              <td className="py-1 pr-4">—</td>
-              <td className="py-1">dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness</td>
-            </tr>
-          </tbody>
-        </table>
+        <DocTable
+          head={["suffix", "unit", "used for"]}
+          cells={["font-mono"]}
+          top={false}
+          rows={[...UNIT_SUFFIXES.map((u) => [u.suffix, u.unit, u.what]), ["(none)", "—", DIMENSIONLESS]]}
+        />
         <p className="text-sm text-slate-700">
           Unknown fields are refused rather than ignored: sending <code>flow</code> instead of <code>flow_m3s</code> gives a
           400 naming <code>flow</code>. Fluid properties are those of liquid water at <code>temperature_c</code>{" "}
@@ -156,22 +142,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
             <code>{e.path}</code>
           </h2>
           <p className="text-sm text-slate-700">{e.summary}</p>
-          <table className="w-full text-left text-sm">
-            <thead>
-              <tr className="border-b border-slate-200">
-                <th className="py-1 pr-4">request field</th>
-                <th className="py-1">rule</th>
-              </tr>
-            </thead>
-            <tbody>
-              {e.fields.map((f) => (
-                <tr key={f.field} className="border-b border-slate-100 align-top">
-                  <td className="py-1 pr-4 font-mono">{f.field}</td>
-                  <td className="py-1">{f.rule}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <DocTable head={["request field", "rule"]} cells={["font-mono"]} rows={e.fields.map((f) => [f.field, f.rule])} />
           <div className="grid gap-3 md:grid-cols-2">
             <div>
               <h3 className="label">Example request</h3>
@@ -202,28 +173,16 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           From the engine's correlation registry, with the ranges inside which each is stated valid. Outside them the
           answer still comes, with a warning in <code>warnings</code>.
         </p>
-        <table className="w-full text-left text-sm">
-          <thead>
-            <tr className="border-b border-slate-200">
-              <th className="py-1 pr-4">correlation</th>
-              <th className="py-1 pr-4">formula</th>
-              <th className="py-1 pr-4">valid for</th>
-              <th className="py-1">source</th>
-            </tr>
-          </thead>
-          <tbody>
-            {correlations.map((c) => (
-              <tr key={c.name} className="border-b border-slate-100 align-top">
-                <td className="py-1 pr-4">{c.name}</td>
-                <td className="py-1 pr-4 font-mono text-xs">{c.formula}</td>
-                <td className="py-1 pr-4">
-                  Re {c.reynolds[0].toLocaleString("en-GB")}–{c.reynolds[1].toExponential(0)}, ε/D {c.relativeRoughness[0]}–{c.relativeRoughness[1]}
-                </td>
-                <td className="py-1 text-xs">{c.reference}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DocTable
+          head={["correlation", "formula", "valid for", "source"]}
+          cells={["", "font-mono text-xs", "", "text-xs"]}
+          rows={correlations.map((c) => [
+            c.name,
+            c.formula,
+            `Re ${c.reynolds[0].toLocaleString("en-GB")}–${c.reynolds[1].toExponential(0)}, ε/D ${c.relativeRoughness[0]}–${c.relativeRoughness[1]}`,
+            c.reference,
+          ])}
+        />
       </section>
 
       <section id="account" className="panel space-y-2">
@@ -233,24 +192,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           session; without either, 401. A token acts for its workspace with its owner's role; a role that may not do
           something gets 403.
         </p>
-        <table className="w-full text-left text-sm">
-          <thead>
-            <tr className="border-b border-slate-200">
-              <th className="py-1 pr-4">request</th>
-              <th className="py-1 pr-4">needs</th>
-              <th className="py-1">answer</th>
-            </tr>
-          </thead>
-          <tbody>
-            {ACCOUNT_ENDPOINTS.map(([path, perm, what]) => (
-              <tr key={path} className="border-b border-slate-100 align-top">
-                <td className="py-1 pr-4 font-mono">{path}</td>
-                <td className="py-1 pr-4 font-mono text-xs">{perm}</td>
-                <td className="py-1">{what}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DocTable head={["request", "needs", "answer"]} cells={["font-mono", "font-mono text-xs"]} rows={ACCOUNT_ENDPOINTS} />
         <Code>{`curl -sS https://<your Dutymark address>/api/v1/libraries \\
   -H 'Authorization: Bearer <token>'`}</Code>
       </section>

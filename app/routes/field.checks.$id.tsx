@@ -1,4 +1,5 @@
 import * as v from "valibot";
+import type { ReactNode } from "react";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
 import { requireMember } from "~/lib/auth/guards.server";
@@ -166,37 +167,23 @@ export default function FieldCheckRecord() {
       </section>
 
       {r.hints.length ? (
-        <section className="panel" aria-labelledby="hints-h">
-          <h2 id="hints-h" className="font-semibold">
-            If the point is off
-          </h2>
+        <Part title="If the point is off" id="hints-h">
           <p className="text-sm">{r.hints[0]}</p>
-          <ul className="ml-5 mt-1 list-disc text-sm">
-            {r.hints.slice(1).map((h) => (
-              <li key={h}>{h}</li>
-            ))}
-          </ul>
-        </section>
+          <Bullets items={r.hints.slice(1)} className="mt-1" />
+        </Part>
       ) : null}
 
-      <section className="panel">
-        <h2 className="font-semibold">On the curve</h2>
+      <Part title="On the curve">
         <FieldCheckChart r={r} unitSystem={sys} compact />
-      </section>
+      </Part>
 
       {r.warnings.length ? (
-        <section className="panel">
-          <h2 className="font-semibold">Notes on the working</h2>
-          <ul className="ml-5 list-disc text-sm">
-            {r.warnings.map((w) => (
-              <li key={w}>{w}</li>
-            ))}
-          </ul>
-        </section>
+        <Part title="Notes on the working">
+          <Bullets items={r.warnings} />
+        </Part>
       ) : null}
 
-      <section className="panel">
-        <h2 className="font-semibold">Readings</h2>
+      <Part title="Readings">
         <dl className="mt-2 grid grid-cols-1 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
           <dt className="text-slate-600">Suction gauge</dt>
           <dd>{gaugeText(sys, rd.suction, r.gauges.suction)}</dd>
@@ -231,11 +218,10 @@ export default function FieldCheckRecord() {
           <dd className="whitespace-pre-wrap">{d.check.notes || "—"}</dd>
         </dl>
         <GradeTable highlight={r.grade.id} />
-      </section>
+      </Part>
 
       {d.photos.length ? (
-        <section className="panel">
-          <h2 className="font-semibold">Photos</h2>
+        <Part title="Photos">
           <ul className="mt-2 grid grid-cols-2 gap-2 sm:grid-cols-3">
             {d.photos.map((p) => (
               <li key={p.id}>
@@ -246,7 +232,7 @@ export default function FieldCheckRecord() {
               </li>
             ))}
           </ul>
-        </section>
+        </Part>
       ) : null}
 
       <section className="panel flex flex-wrap items-center gap-2 text-sm">
@@ -272,6 +258,28 @@ export default function FieldCheckRecord() {
 
       <FieldCaution />
     </article>
+  );
+}
+
+/** One part of the record: a panel under its heading (`id` names the heading for aria-labelledby). */
+function Part({ title, id, children }: { title: string; id?: string; children: ReactNode }) {
+  return (
+    <section className="panel" aria-labelledby={id}>
+      <h2 id={id} className="font-semibold">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+function Bullets({ items, className = "" }: { items: string[]; className?: string }) {
+  return (
+    <ul className={`ml-5 list-disc text-sm ${className}`.trim()}>
+      {items.map((x) => (
+        <li key={x}>{x}</li>
+      ))}
+    </ul>
   );
 }
 

@@ -11,7 +11,7 @@ import { FormError, Notice } from "~/components/forms";
 import { JsNotice } from "~/components/tracer/JsNotice";
 import { TracerWorkbench } from "~/components/tracer/TracerWorkbench";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -51,13 +51,11 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function TracePicture({ loaderData: d, actionData }: Route.ComponentProps) {
   return (
     <div className="space-y-4">
-      <div>
-        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name], [`/libraries/${d.lib.id}/trace`, "Trace a curve"]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Trace: {d.picture.filename}</h1>
+      <PageHead trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name], [`/libraries/${d.lib.id}/trace`, "Trace a curve"]]} title={`Trace: ${d.picture.filename}`}>
         <p className="text-xs text-slate-500">
           {d.picture.type} · SHA-256 {d.picture.sha256.slice(0, 16)}…
         </p>
-      </div>
+      </PageHead>
       <JsNotice>The tracer runs in the browser and needs JavaScript: turn it on to calibrate and trace this picture.</JsNotice>
       <Notice>{TRACE_CAUTION}</Notice>
       <FormError error={actionData && "error" in actionData ? actionData.error : undefined} />

@@ -6,7 +6,7 @@ import { listPictures, MAX_PICTURE_BYTES } from "~/lib/tracer/pictures.server";
 import { fmtBytes } from "~/components/library-bits";
 import { JsNotice } from "~/components/tracer/JsNotice";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 
 export const meta: Route.MetaFunction = () => [{ title: "Trace a curve · Dutymark" }];
 
@@ -20,14 +20,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export default function TraceStart({ loaderData: d }: Route.ComponentProps) {
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Trace a curve</h1>
+      <PageHead trail={[["/libraries", "Pump libraries"], [`/libraries/${d.lib.id}`, d.lib.name]]} title="Trace a curve">
         <p className="text-sm text-slate-600">
           From a PDF datasheet or a scanned page: calibrate the axes, follow each curve by clicking or by its colour, then check and import
           the points like a CSV file.
         </p>
-      </div>
+      </PageHead>
       <JsNotice>The tracer itself runs in the browser and needs JavaScript. Storing a picture works without it.</JsNotice>
       <section className="panel space-y-3">
         <h2 className="text-lg font-semibold">Bring the picture</h2>

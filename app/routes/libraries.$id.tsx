@@ -7,7 +7,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { toSI } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf, renderUnits } from "~/components/units";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
 import { Field, FormError, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
@@ -17,7 +17,7 @@ import { recentImports } from "~/lib/libraries/import-progress.server";
 import { CurvePreview } from "~/components/CurvePreview";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
 import { fmtDateTime } from "~/lib/shared/format";
 
@@ -102,7 +102,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 const Settings = v.object({
   name: Name("a library name"),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(1000, "Keep the description under 1000 characters.")),
+  description: FreeText("description", 1000),
   visibility: v.picklist(VISIBILITIES, "Pick who sees the library."),
 });
 
@@ -131,16 +131,20 @@ export default function LibraryPage() {
   const { errors, notice } = useFormResult();
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/libraries", "Pump libraries"]]} />
-        <h1 className="flex flex-wrap items-center gap-3 text-2xl font-bold text-brand-900">
-          {d.lib.name} <AccessBadge access={d.lib.access} visibility={d.lib.visibility} />
-        </h1>
+      <PageHead
+        trail={[["/libraries", "Pump libraries"]]}
+        titleClass="flex flex-wrap items-center gap-3"
+        title={
+          <>
+            {d.lib.name} <AccessBadge access={d.lib.access} visibility={d.lib.visibility} />
+          </>
+        }
+      >
         <p className="text-sm text-slate-600">
           by {d.lib.owner}
           {d.lib.description ? ` · ${d.lib.description}` : ""}
         </p>
-      </div>
+      </PageHead>
       {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
       {d.locked ? (
@@ -229,19 +233,10 @@ export default function LibraryPage() {
                   />
                   <details>
                     <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
-                    {d.curves.map((c) => (
-                      <table key={c.id} className="mt-2 w-full text-xs" aria-label={`Points of ${d.modelName} ${renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}`}>
-                        <caption className="text-left font-semibold">{renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem)}</caption>
-                        <thead className="text-left text-slate-600">
-                          <tr>
-                            <th>Flow</th>
-                            <th>Head</th>
-                            <th>Efficiency</th>
-                            <th>Shaft power</th>
-                            <th>NPSHr</th>
-                          </tr>
-                        </thead>
-                        <tbody>
+                    {d.curves.map((c) => {
+                      const label = renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem);
+                      return (
+                        <ListTable key={c.id} head={["Flow", "Head", "Efficiency", "Shaft power", "NPSHr"]} small label={`Points of ${d.modelName} ${label}`} caption={label}>
                           {c.points.map((p, i) => (
                             <tr key={i} className="border-t border-slate-100">
                               <td>{fmtFlow(d.unitSystem, p.flow)}</td>
@@ -251,9 +246,9 @@ export default function LibraryPage() {
                               <td>{p.npshr == null ? "—" : fmtHead(d.unitSystem, p.npshr)}</td>
                             </tr>
                           ))}
-                        </tbody>
-                      </table>
-                    ))}
+                        </ListTable>
+                      );
+                    })}
                   </details>
                 </div>
               </div>

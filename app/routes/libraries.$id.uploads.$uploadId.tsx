@@ -13,13 +13,13 @@ import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm } from
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
-import { FormError, Notice } from "~/components/forms";
+import { FormError, Notice, Options } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
 import { fmtBytes } from "~/components/library-bits";
 import { TRACE_CAUTION } from "~/lib/tracer/sniff";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { renderDeep, type UnitChoice } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
@@ -108,15 +108,13 @@ export default function UploadPreview() {
   const bad = d.stats.curveSets - d.stats.curveSetsOk;
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/libraries", "Pump libraries"], [`/libraries/${l.lib.id}`, l.lib.name]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Map and check: {l.upload.filename}</h1>
+      <PageHead trail={[["/libraries", "Pump libraries"], [`/libraries/${l.lib.id}`, l.lib.name]]} title={`Map and check: ${l.upload.filename}`}>
         <p className="text-xs text-slate-500">
           {fmtBytes(l.upload.size)} · SHA-256 {l.upload.sha256.slice(0, 16)}… · delimiter “{d.sniff.delimiter}” · decimal{" "}
           {d.sniff.decimalComma ? "comma" : "point"} · header on line {d.sniff.headerLine}
           {d.sniff.hadBom ? " · byte-order mark removed" : ""}
         </p>
-      </div>
+      </PageHead>
       <FormError error={a?.error} />
       {l.correctedFrom ? (
         <Notice>
@@ -156,12 +154,10 @@ export default function UploadPreview() {
             <label className="flex items-center gap-2">
               Text encoding
               <select name="encoding" defaultValue={d.mapping.encoding ?? d.encoding.name} className="field w-auto" data-testid="encoding">
-                {ENCODINGS.map((e) => (
-                  <option key={e} value={e}>
-                    {ENCODING_LABEL[e]}
-                    {e === d.encoding.name && d.encoding.how !== "chosen" ? (d.encoding.how === "fallback" ? " (not valid UTF-8: guessed)" : " (detected)") : ""}
-                  </option>
-                ))}
+                <Options
+                  values={ENCODINGS}
+                  label={(e) => `${ENCODING_LABEL[e]}${e === d.encoding.name && d.encoding.how !== "chosen" ? (d.encoding.how === "fallback" ? " (not valid UTF-8: guessed)" : " (detected)") : ""}`}
+                />
               </select>
             </label>
             <label className="flex items-center gap-2">
@@ -216,21 +212,13 @@ export default function UploadPreview() {
                   <td className="text-xs text-slate-600">{(d.samples[c.index] ?? []).join(" · ")}</td>
                   <td>
                     <select name={`field.${c.index}`} defaultValue={c.field} className="field w-auto py-0.5" aria-label={`Meaning of ${c.header}`}>
-                      {FIELDS.map((f) => (
-                        <option key={f} value={f}>
-                          {FIELD_LABEL[f]}
-                        </option>
-                      ))}
+                      <Options values={FIELDS} label={(f) => FIELD_LABEL[f]} />
                     </select>
                   </td>
                   <td>
                     {numeric ? (
                       <select name={`unit.${c.index}`} defaultValue={c.unit ?? ""} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
-                        {(UNITS_BY_FIELD[c.field as NumericField] as readonly string[]).map((u) => (
-                          <option key={u} value={u}>
-                            {u}
-                          </option>
-                        ))}
+                        <Options values={UNITS_BY_FIELD[c.field as NumericField] as readonly string[]} />
                       </select>
                     ) : (
                       <span className="text-slate-400">—</span>

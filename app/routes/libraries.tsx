@@ -1,15 +1,16 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { createLibrary, listLibraries } from "~/lib/libraries";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, readForm } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { ListTable } from "~/components/ListTable";
+import { useFormResult } from "~/components/useFormResult";
+import { ListTable, NameCell } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
 
@@ -21,7 +22,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 const Schema = v.object({
   name: Name("a library name"),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(1000, "Keep the description under 1000 characters.")),
+  description: FreeText("description", 1000),
 });
 
 export async function action({ request }: Route.ActionArgs) {
@@ -34,8 +35,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function Libraries() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>();
-  const errors = (a?.errors ?? {}) as Record<string, string>;
+  const { errors } = useFormResult();
   const own = d.list.filter((l) => l.access === "owner");
   const shared = d.list.filter((l) => l.access !== "owner");
   return (
@@ -77,12 +77,9 @@ function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<t
     <ListTable head={["Library", "Owner", "Models", "Curves", "Revision", "Access"]}>
       {list.map((l) => (
         <tr key={l.id} className="border-t border-slate-100 align-top">
-          <td className="py-1">
-            <a href={`/libraries/${l.id}`} className="font-semibold">
-              {l.name}
-            </a>
+          <NameCell href={`/libraries/${l.id}`} name={l.name}>
             {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
-          </td>
+          </NameCell>
           <td>{l.owner}</td>
           <td>{l.modelCount}</td>
           <td>{l.curveCount}</td>

@@ -10,12 +10,12 @@ import { Field, FormError, Notice } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
 import { renderDeep } from "~/lib/shared/units";
 import { fmtDate } from "~/lib/shared/format";
-import { ListTable } from "~/components/ListTable";
+import { ListTable, NameCell } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.project.name ?? "Project"} · Dutymark` }];
 
@@ -76,16 +76,19 @@ export default function ProjectPage() {
   const { errors, notice } = useFormResult();
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/projects", "Projects"]]} />
-        <h1 className="text-2xl font-bold text-brand-900">
-          {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
-        </h1>
+      <PageHead
+        trail={[["/projects", "Projects"]]}
+        title={
+          <>
+            {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
+          </>
+        }
+      >
         <p className="text-sm text-slate-600">
           {d.project.site}
           {d.project.description ? ` · ${d.project.description}` : ""}
         </p>
-      </div>
+      </PageHead>
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
       {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
@@ -97,11 +100,7 @@ export default function ProjectPage() {
           <ListTable head={["System", "Kind", "Duty"]}>
             {d.systems.map((s) => (
               <tr key={s.id} className="border-t border-slate-100">
-                <td className="py-1">
-                  <a href={`/systems/${s.id}`} className="font-semibold">
-                    {s.name}
-                  </a>
-                </td>
+                <NameCell href={`/systems/${s.id}`} name={s.name} />
                 <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
                 <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
               </tr>

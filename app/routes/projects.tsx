@@ -1,14 +1,15 @@
 import * as v from "valibot";
-import { Form, redirect, useActionData, useLoaderData } from "react-router";
+import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects";
 import { requireMember } from "~/lib/auth/guards.server";
 import { createProject, listProjects } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { ListTable } from "~/components/ListTable";
+import { useFormResult } from "~/components/useFormResult";
+import { ListTable, NameCell } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }];
 
@@ -20,8 +21,8 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 const Schema = v.object({
   name: Name("a project name", 160),
-  site: v.pipe(v.string(), v.trim(), v.maxLength(200, "Keep the site under 200 characters.")),
-  description: v.pipe(v.string(), v.trim(), v.maxLength(2000, "Keep the description under 2000 characters.")),
+  site: FreeText("site", 200),
+  description: FreeText("description", 2000),
 });
 
 export async function action({ request }: Route.ActionArgs) {
@@ -34,8 +35,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function Projects() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>();
-  const errors = (a?.errors ?? {}) as Record<string, string>;
+  const { errors } = useFormResult();
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -51,11 +51,7 @@ export default function Projects() {
           <ListTable head={["Project", "Site", "Systems", "Selections"]} className="">
             {d.list.map((p) => (
               <tr key={p.id} className="border-t border-slate-100">
-                <td className="py-1">
-                  <a href={`/projects/${p.id}`} className="font-semibold">
-                    {p.name}
-                  </a>
-                </td>
+                <NameCell href={`/projects/${p.id}`} name={p.name} />
                 <td>{p.site}</td>
                 <td>{p.systems}</td>
                 <td>{p.selections}</td>

@@ -3,7 +3,7 @@ import { Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/signup";
 import { getAuth } from "~/lib/auth/session.server";
 import { signUp } from "~/lib/auth/accounts.server";
-import { Email, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
+import { Email, FreeText, NewPassword, Name, invalid, readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, Field, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 
@@ -13,7 +13,7 @@ const Schema = v.object({
   email: Email,
   name: Name("your name"),
   password: NewPassword,
-  workspace: v.optional(v.pipe(v.string(), v.trim(), v.maxLength(120, "Keep the workspace name under 120 characters."))),
+  workspace: v.optional(FreeText("workspace name", 120)),
   next: v.optional(v.string()),
 });
 

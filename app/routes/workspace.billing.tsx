@@ -23,7 +23,7 @@ import {
 import { FormError, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
 import { fmtDate } from "~/lib/shared/format";
 
@@ -145,10 +145,7 @@ export default function Billing() {
   const locked = d.shared.filter((l) => l.access === "locked");
   return (
     <div className="space-y-6">
-      <div>
-        <Crumbs trail={[["/workspace", d.workspace.name]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Plan and billing</h1>
-      </div>
+      <PageHead trail={[["/workspace", d.workspace.name]]} title="Plan and billing" />
 
       {d.checkout === "done" ? (
         <Notice>

@@ -6,7 +6,7 @@ import { requireMember, setCurrentWorkspace } from "~/lib/auth/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions";
 import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { data } from "react-router";
-import { Field, FormError, Notice } from "~/components/forms";
+import { Field, FormError, Notice, Options } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PostButton } from "~/components/PostButton";
 import { ListTable } from "~/components/ListTable";
@@ -150,11 +150,7 @@ export default function Workspace() {
                         Role of {mem.email}
                       </label>
                       <select id={`role-${mem.id}`} name="role" defaultValue={mem.role} className="field w-auto py-0.5">
-                        {ROLES.map((r) => (
-                          <option key={r} value={r}>
-                            {r}
-                          </option>
-                        ))}
+                        <Options values={ROLES} />
                       </select>
                       <button className="btn-quiet py-0.5" name="intent" value="role">
                         Set
@@ -189,11 +185,7 @@ export default function Workspace() {
                 Role
               </label>
               <select id="f-invite-role" name="role" className="field" defaultValue="engineer">
-                {ROLES.map((r) => (
-                  <option key={r} value={r}>
-                    {ROLE_LABELS[r]}
-                  </option>
-                ))}
+                <Options values={ROLES} label={(r) => ROLE_LABELS[r]} />
               </select>
             </div>
             <button className="btn">Send invitation</button>

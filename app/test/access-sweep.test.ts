@@ -38,6 +38,14 @@ type Probe = {
   unchanged: (ctx: Ctx) => Promise<boolean>;
 };
 
+/** A GET of one of B's pages by A (its `:id` B's record): it changes nothing, so nothing is read back after it. */
+const read = (name: string, fn: Probe["fn"], path: (c: Ctx) => string, id: (c: Ctx) => number): Probe => ({
+  name,
+  fn,
+  opts: (c) => ({ path: path(c), cookie: c.a.cookie, params: { id: String(id(c)) } }),
+  unchanged: async () => true,
+});
+
 export const SWEEP: Probe[] = [
   {
     name: "POST /workspace intent=role (B's membership id)",
@@ -79,18 +87,9 @@ export const SWEEP: Probe[] = [
     opts: (c) => ({ path: "/account", cookie: c.a.cookie, form: { intent: "revoke-device", sessionId: c.bSessionId } }),
     unchanged: async (c) => (await db().select().from(sessions).where(eq(sessions.id, c.bSessionId))).length === 1,
   },
-  {
-    name: "GET /field/selections/:id (B's selection)",
-    fn: () => fieldFormRoute.loader as never,
-    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
-    unchanged: async () => true,
-  },
-  {
-    name: "GET /field/selections/:id?amend= (B's check, B's selection)",
-    fn: () => fieldFormRoute.loader as never,
-    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}?amend=${c.bField.checkId}`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
-    unchanged: async () => true,
-  },
+  read("GET /field/selections/:id (B's selection)", () => fieldFormRoute.loader as never, (c) => `/field/selections/${c.bField.selectionId}`, (c) => c.bField.selectionId),
+  read("GET /field/selections/:id?amend= (B's check, B's selection)", () => fieldFormRoute.loader as never,
+    (c) => `/field/selections/${c.bField.selectionId}?amend=${c.bField.checkId}`, (c) => c.bField.selectionId),
   {
     name: "POST /field/selections/:id/photos (a check on B's selection)",
     fn: () => fieldFormRoute.action as never,
@@ -115,30 +114,15 @@ export const SWEEP: Probe[] = [
     opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/checks`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) }, form: fieldsForHead(20, 998.2, { flow: "0.01", amends: String(c.bField.checkId), clientId: "sweep-probe-0002" }) }),
     unchanged: async (c) => (await checksOf(c.bField.selectionId)) === 1,
   },
-  {
-    name: "GET /field/checks/:id (B's check)",
-    fn: () => fieldCheckRoute.loader as never,
-    opts: (c) => ({ path: `/field/checks/${c.bField.checkId}`, cookie: c.a.cookie, params: { id: String(c.bField.checkId) } }),
-    unchanged: async () => true,
-  },
+  read("GET /field/checks/:id (B's check)", () => fieldCheckRoute.loader as never, (c) => `/field/checks/${c.bField.checkId}`, (c) => c.bField.checkId),
   {
     name: "GET /field/checks/:id/photos/:photoId (B's photo)",
     fn: () => fieldPhotoRoute.loader as never,
     opts: (c) => ({ path: `/field/checks/${c.bField.checkId}/photos/${c.bField.photoId}`, cookie: c.a.cookie, params: { id: String(c.bField.checkId), photoId: String(c.bField.photoId) } }),
     unchanged: async (c) => (await db().select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.id, c.bField.photoId))).length === 1,
   },
-  {
-    name: "GET /field/selections/:id/export.csv (B's selection)",
-    fn: () => fieldCsvRoute.loader as never,
-    opts: (c) => ({ path: `/field/selections/${c.bField.selectionId}/export.csv`, cookie: c.a.cookie, params: { id: String(c.bField.selectionId) } }),
-    unchanged: async () => true,
-  },
-  {
-    name: "GET /projects/:id/share (B's project)",
-    fn: () => shareRoute.loader as never,
-    opts: (c) => ({ path: `/projects/${c.bField.projectId}/share`, cookie: c.a.cookie, params: { id: String(c.bField.projectId) } }),
-    unchanged: async () => true,
-  },
+  read("GET /field/selections/:id/export.csv (B's selection)", () => fieldCsvRoute.loader as never, (c) => `/field/selections/${c.bField.selectionId}/export.csv`, (c) => c.bField.selectionId),
+  read("GET /projects/:id/share (B's project)", () => shareRoute.loader as never, (c) => `/projects/${c.bField.projectId}/share`, (c) => c.bField.projectId),
   {
     name: "POST /projects/:id/share intent=share (B's project, to A's workspace)",
     fn: () => shareRoute.action as never,

@@ -41,38 +41,26 @@ const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]
 type Ctx = { m: TestMember; token: string; lib: number; upload: number; picture: number; project: number; system: number; selection: number; check: number; photo: number; invite: string };
 let ctx: Ctx;
 
+/** Routes whose one path parameter is `:id`, by the record of the context it names. */
+const ID_ROUTES: [record: "lib" | "project" | "system" | "selection" | "check", paths: string[]][] = [
+  ["lib", ["libraries/:id", "libraries/:id/upload", "libraries/:id/export.csv", "libraries/:id/export.json", "libraries/:id/trace", "libraries/:id/trace/upload"]],
+  ["lib", ["api/v1/libraries/:id/curves", "api/v1/libraries/:id/models", "api/v1/libraries/:id/upload"]],
+  ["project", ["projects/:id", "projects/:id/share"]],
+  ["system", ["systems/:id", "systems/:id/search", "api/v1/systems/:id/preview", "api/v1/systems/:id", "api/v1/systems/:id/search"]],
+  ["selection", ["selections/:id", "selections/:id/export.csv", "selections/:id/export.json"]],
+  ["selection", ["field/selections/:id", "field/selections/:id/photos", "field/selections/:id/export.csv", "field/selections/:id/checks"]],
+  ["check", ["field/checks/:id"]],
+];
+
 /** Good values for every path parameter of every route (so bodies and queries reach past the id lookup). */
 const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
-  "libraries/:id": (c) => ({ id: String(c.lib) }),
-  "libraries/:id/upload": (c) => ({ id: String(c.lib) }),
+  ...Object.fromEntries(ID_ROUTES.flatMap(([record, paths]) => paths.map((path) => [path, (c: Ctx) => ({ id: String(c[record]) })]))),
   "libraries/:id/uploads/:uploadId": (c) => ({ id: String(c.lib), uploadId: String(c.upload) }),
-  "libraries/:id/export.csv": (c) => ({ id: String(c.lib) }),
-  "libraries/:id/export.json": (c) => ({ id: String(c.lib) }),
-  "libraries/:id/trace": (c) => ({ id: String(c.lib) }),
-  "libraries/:id/trace/upload": (c) => ({ id: String(c.lib) }),
   "libraries/:id/trace/:pictureId": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
   "libraries/:id/trace/:pictureId/file": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
-  "projects/:id": (c) => ({ id: String(c.project) }),
-  "projects/:id/share": (c) => ({ id: String(c.project) }),
-  "systems/:id": (c) => ({ id: String(c.system) }),
-  "systems/:id/search": (c) => ({ id: String(c.system) }),
-  "selections/:id": (c) => ({ id: String(c.selection) }),
-  "selections/:id/export.csv": (c) => ({ id: String(c.selection) }),
-  "selections/:id/export.json": (c) => ({ id: String(c.selection) }),
-  "field/selections/:id": (c) => ({ id: String(c.selection) }),
-  "field/selections/:id/photos": (c) => ({ id: String(c.selection) }),
-  "field/selections/:id/export.csv": (c) => ({ id: String(c.selection) }),
-  "field/selections/:id/checks": (c) => ({ id: String(c.selection) }),
-  "field/checks/:id": (c) => ({ id: String(c.check) }),
   "field/checks/:id/photos/:photoId": (c) => ({ id: String(c.check), photoId: String(c.photo) }),
   "invite/:token": (c) => ({ token: c.invite }),
-  "api/v1/libraries/:id/curves": (c) => ({ id: String(c.lib) }),
-  "api/v1/libraries/:id/models": (c) => ({ id: String(c.lib) }),
-  "api/v1/libraries/:id/upload": (c) => ({ id: String(c.lib) }),
   "api/v1/models/:id": () => ({ id: "1" }),
-  "api/v1/systems/:id/preview": (c) => ({ id: String(c.system) }),
-  "api/v1/systems/:id": (c) => ({ id: String(c.system) }),
-  "api/v1/systems/:id/search": (c) => ({ id: String(c.system) }),
   "api/*": () => ({ "*": "nothing/here" }),
   "*": () => ({ "*": "nothing/here" }),
 };

@@ -144,21 +144,16 @@ export function DutyChart(props: DutyChartProps) {
   );
 }
 
-/** What one panel draws inside its clip, bottom layer first. */
+/** What the head panel and every other panel draw inside their clip, bottom layer first. */
+const HEAD_LAYERS = [SystemBand, PorShading, SystemCurve, PumpHeadCurves];
+const PANEL_LAYERS = [NpshaCurve, PumpPanelCurves, PanelMarks, NpshaLabel];
+
 function PanelContent(props: LayerProps) {
-  return props.panel.kind === "head" ? (
+  return (
     <g>
-      <SystemBand {...props} />
-      <PorShading {...props} />
-      <SystemCurve {...props} />
-      <PumpHeadCurves {...props} />
-    </g>
-  ) : (
-    <g>
-      <NpshaCurve {...props} />
-      <PumpPanelCurves {...props} />
-      <PanelMarks {...props} />
-      <NpshaLabel {...props} />
+      {(props.panel.kind === "head" ? HEAD_LAYERS : PANEL_LAYERS).map((Layer, i) => (
+        <Layer key={i} {...props} />
+      ))}
     </g>
   );
 }

@@ -10,11 +10,11 @@ export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
       <table className="w-full text-left text-sm">
         <thead className="text-xs uppercase tracking-wide text-slate-500">
           <tr>
-            <th className="py-1 pr-3 font-semibold">#</th>
-            <th className="py-1 pr-3 font-semibold">To</th>
-            <th className="py-1 pr-3 font-semibold">Subject</th>
-            <th className="py-1 pr-3 font-semibold">Written</th>
-            <th className="py-1 pr-3 font-semibold">State</th>
+            {["#", "To", "Subject", "Written", "State"].map((h) => (
+              <th key={h} className="py-1 pr-3 font-semibold">
+                {h}
+              </th>
+            ))}
           </tr>
         </thead>
         <tbody className="divide-y divide-slate-100">

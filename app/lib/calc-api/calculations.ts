@@ -99,6 +99,9 @@ function warningsOut(ws: readonly EngineWarning[], ctx: Parameters<typeof engine
 
 type FluidOut = { name: string; temperature_c: number; density_kgm3: number; kinematic_viscosity_m2s: number; viscosity_source: "water" | "given" };
 
+/** Every calculation's answer: its own figures, then the fluid it used and the engine's warnings. */
+type Answer<Figures> = Figures & { fluid: FluidOut; warnings: CalcWarning[] };
+
 /** Water at `temperature_c` (default DEFAULT_TEMPERATURE_C), with ν replaced when the caller gives one. */
 function fluidFor(temperatureC: number | undefined, nu: number | undefined): { fluid: Fluid; out: FluidOut } {
   const t = temperatureC ?? DEFAULT_TEMPERATURE_C;
@@ -129,7 +132,7 @@ function roughnessErrors(segments: readonly { diameter_m: number; roughness_m: n
 
 // ───────────────────────────── the three calculations ─────────────────────────────
 
-export type PipeLossResponse = {
+export type PipeLossResponse = Answer<{
   velocity_ms: number;
   reynolds: number;
   relative_roughness: number;
@@ -141,9 +144,7 @@ export type PipeLossResponse = {
   minor_loss_m: number;
   velocity_head_m: number;
   pressure_drop_pa: number;
-  fluid: FluidOut;
-  warnings: CalcWarning[];
-};
+}>;
 
 /** POST /api/v1/calc/pipe-loss, as a pure function of the parsed JSON body. */
 export function calcPipeLoss(body: unknown): CalcOutcome<PipeLossResponse> {
@@ -184,11 +185,7 @@ export function calcPipeLoss(body: unknown): CalcOutcome<PipeLossResponse> {
   }, ctx);
 }
 
-export type SystemCurveResponse = {
-  points: { flow_m3s: number; head_m: number; pressure_pa: number }[];
-  fluid: FluidOut;
-  warnings: CalcWarning[];
-};
+export type SystemCurveResponse = Answer<{ points: { flow_m3s: number; head_m: number; pressure_pa: number }[] }>;
 
 function prepare(
   sys: { static_head_m: number; segments: readonly { length_m: number; diameter_m: number; roughness_m: number; minor_k?: number }[] },
@@ -238,7 +235,7 @@ export const STATUS_MAP: Record<OperatingStatus, ApiOperatingStatus> = {
   "beyond-curve-end": "beyond_curve",
 };
 
-export type OperatingPointResponse = {
+export type OperatingPointResponse = Answer<{
   status: ApiOperatingStatus;
   flow_m3s: number | null;
   head_m: number | null;
@@ -246,9 +243,7 @@ export type OperatingPointResponse = {
   message: string;
   /** Every crossing, ascending flow (one when ok, several when multiple, none otherwise). */
   intersections: { flow_m3s: number; head_m: number }[];
-  fluid: FluidOut;
-  warnings: CalcWarning[];
-};
+}>;
 
 /** POST /api/v1/calc/operating-point, as a pure function of the parsed JSON body. */
 export function calcOperatingPoint(body: unknown): CalcOutcome<OperatingPointResponse> {

@@ -66,36 +66,46 @@ describe("semicolon-decimal-comma.csv", () => {
   });
 });
 
-describe("wide-by-diameter.csv", () => {
-  const a = analyseCsv(fixture("wide-by-diameter.csv"));
-  it("becomes 2 models × 3 trims", () => {
-    expect(a.result.problems).toEqual([]); // source: hand-written fixture (clean)
-    expect(a.result.curveSets.map((c) => [c.key, c.points.length])).toEqual([
+// One column block per trim or per speed: each block becomes a curve set of its own.
+describe.each([
+  {
+    file: "wide-by-diameter.csv",
+    what: "2 models × 3 trims",
+    sets: [
       ["Ridgeway RW-100|2900|250", 7], // source: fixture lines 2-8
       ["Ridgeway RW-100|2900|230", 6], // source: fixture lines 2-7 (line 8 blank)
       ["Ridgeway RW-100|2900|210", 6],
       ["Ridgeway RW-125|2900|250", 7], // source: fixture lines 9-15
       ["Ridgeway RW-125|2900|230", 6],
       ["Ridgeway RW-125|2900|210", 6],
-    ]);
-    const t230 = a.result.curveSets[1];
-    expect(t230.impellerDiameter).toBeCloseTo(0.23, 12); // source: header "Head 230mm"
-    expect([t230.points[0].flow, t230.points[0].head]).toEqual([0, 54.17]); // source: fixture line 2
-  });
-});
-
-describe("wide-by-speed.csv", () => {
-  const a = analyseCsv(fixture("wide-by-speed.csv"));
-  it("becomes 2 models × 2 speeds", () => {
-    expect(a.result.problems).toEqual([]); // source: hand-written fixture (clean)
-    expect(a.result.curveSets.map((c) => [c.key, c.points.length])).toEqual([
+    ],
+  },
+  {
+    file: "wide-by-speed.csv",
+    what: "2 models × 2 speeds",
+    sets: [
       ["Coldbrook CB 2|2900|180", 6], // source: fixture lines 2-7
       ["Coldbrook CB 2|1450|180", 6],
       ["Coldbrook CB 4|2900|230", 6], // source: fixture lines 8-13
       ["Coldbrook CB 4|1450|230", 6],
-    ]);
-    const p = a.result.curveSets[1].points[1];
-    expect(relClose(p.flow, 5 / 3600)).toBe(true); // source: fixture line 3, Q@1450 = 5.0 m³/h
-    expect(p.head).toBe(7.36); // source: fixture line 3, H@1450
+    ],
+  },
+])("$file", ({ file, what, sets }) => {
+  it(`becomes ${what}`, () => {
+    const a = analyseCsv(fixture(file));
+    expect(a.result.problems).toEqual([]); // source: hand-written fixture (clean)
+    expect(a.result.curveSets.map((c) => [c.key, c.points.length])).toEqual(sets);
   });
+});
+
+it("wide-by-diameter.csv: the trim comes from the block's header", () => {
+  const t230 = analyseCsv(fixture("wide-by-diameter.csv")).result.curveSets[1];
+  expect(t230.impellerDiameter).toBeCloseTo(0.23, 12); // source: header "Head 230mm"
+  expect([t230.points[0].flow, t230.points[0].head]).toEqual([0, 54.17]); // source: fixture line 2
+});
+
+it("wide-by-speed.csv: the speed comes from the block's header", () => {
+  const p = analyseCsv(fixture("wide-by-speed.csv")).result.curveSets[1].points[1];
+  expect(relClose(p.flow, 5 / 3600)).toBe(true); // source: fixture line 3, Q@1450 = 5.0 m³/h
+  expect(p.head).toBe(7.36); // source: fixture line 3, H@1450
 });

@@ -4,14 +4,10 @@
 import { describe, expect, it } from "vitest";
 import { suggestMapping } from "../import";
 import { editsFromForm, encodingFromForm, mappingFromForm } from "./mapping-form";
+import { formOf } from "~/test/form-data";
 
 const base = suggestMapping(["Model", "Speed", "Q [m3/h]", "H [m]"], [], false);
-const form = (o: Record<string, string>) => {
-  const f = new FormData();
-  f.set("base", JSON.stringify(base));
-  for (const [k, v] of Object.entries(o)) f.set(k, v);
-  return f;
-};
+const form = (o: Record<string, string>) => formOf({ base: JSON.stringify(base), ...o });
 
 describe("mappingFromForm", () => {
   it("keeps the served mapping when nothing was changed", () => {
@@ -57,13 +53,7 @@ describe("mappingFromForm", () => {
 
 describe("editsFromForm", () => {
   it("reads cell.<line>.<index> fields and nothing else", () => {
-    const f = new FormData();
-    f.set("cell.12.3", "1,5");
-    f.set("cell.0.0", "");
-    f.set("cell.x.1", "no");
-    f.set("cell.1234567890.1", "line number too long");
-    f.set("cell.1.12345", "index too long");
-    f.set("note", "kept out");
+    const f = formOf({ "cell.12.3": "1,5", "cell.0.0": "", "cell.x.1": "no", "cell.1234567890.1": "line number too long", "cell.1.12345": "index too long", note: "kept out" });
     expect(editsFromForm(f)).toEqual([
       { line: 12, index: 3, value: "1,5" },
       { line: 0, index: 0, value: "" },

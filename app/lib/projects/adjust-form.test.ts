@@ -1,12 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { readAdjustForm } from "./adjust-form";
 import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
-
-const form = (o: Record<string, string>) => {
-  const f = new FormData();
-  for (const [k, v] of Object.entries(o)) f.set(k, v);
-  return f;
-};
+import { formOf as form } from "~/test/form-data";
 const base = { method: "speed", ratio: "", arrangement: "single", dutyPumps: "1", standbyPumps: "0", motorRating: "", serviceFactor: "1", ieClass: "IE3" };
 
 describe("readAdjustForm", () => {

@@ -11,6 +11,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type SystemInpu
 import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "../import";
 import { makeMember } from "~/test/harness";
+import { formOf } from "~/test/form-data";
 import { workspacesOf } from "../auth/guards.server";
 import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
@@ -62,16 +63,8 @@ describe("system evaluation (pure)", () => {
   });
 
   test("bad form input names the field, never NaN", () => {
-    const fd = new FormData();
-    fd.set("name", "");
-    fd.set("temperature", "hot");
-    fd.set("staticLow", "1");
-    fd.set("staticHigh", "2");
-    fd.set("suctionSurfacePressure", "101.325");
-    fd.set("dutyFlow", "10");
-    fd.set("runCount", "1");
-    fd.set("run.0.diameter", "-3");
-    fd.set("run.0.length", "10");
+    const fd = formOf({ name: "", temperature: "hot", staticLow: "1", staticHigh: "2", suctionSurfacePressure: "101.325", dutyFlow: "10",
+      runCount: "1", "run.0.diameter": "-3", "run.0.length": "10" });
     const r = readSystemForm(fd, SI_UNITS);
     expect(r.input).toBeNull();
     expect(Object.keys(r.errors)).toEqual(expect.arrayContaining(["name", "temperature", "dutyHead", "run.0.diameter"]));

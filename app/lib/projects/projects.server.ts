@@ -27,6 +27,14 @@ import { candidateLabel } from "./labels";
 export const MAX_CANDIDATES = 6;
 export const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
 
+/** The row of a workspace-owned table (projects, selections) with this id in the viewer's workspace, else a 404 naming `what`. */
+export async function ownRow<T extends typeof projects | typeof selections>(viewer: Viewer, table: T, id: number, what: string): Promise<T["$inferSelect"]> {
+  const t = table as typeof projects; // both tables have id and workspaceId; drizzle's select() wants one table type
+  const [row] = await db().select().from(t).where(and(eq(t.id, id), eq(t.workspaceId, viewer.workspace.id)));
+  if (!row) throw notFound(what);
+  return row as T["$inferSelect"];
+}
+
 // ── Projects ────────────────────────────────────────────────────────────────────────────────
 export async function listProjects(viewer: Viewer, opts: { archived?: boolean } = {}) {
   const rows = await db()
@@ -58,12 +66,7 @@ export async function listProjects(viewer: Viewer, opts: { archived?: boolean } 
 }
 
 export async function getProject(viewer: Viewer, projectId: number) {
-  const [p] = await db()
-    .select()
-    .from(projects)
-    .where(and(eq(projects.id, projectId), eq(projects.workspaceId, viewer.workspace.id)));
-  if (!p) throw notFound("project");
-  return p;
+  return ownRow(viewer, projects, projectId, "project");
 }
 
 export async function createProject(viewer: Viewer, input: { name: string; site: string; description: string }) {

@@ -7,7 +7,7 @@ import { curveSets, libraries, libraryRevisions, projects, pumpModels, selection
 import type { LibraryCurveSet, Viewer } from "../libraries";
 import type { Adjustment, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
-import { notFound, ownCandidate, systemWorkbench } from "./projects.server";
+import { ownCandidate, ownRow, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
@@ -79,11 +79,7 @@ export type FrozenSelection = {
 };
 
 export async function getSelection(viewer: Viewer, selectionId: number) {
-  const [s] = await db()
-    .select()
-    .from(selections)
-    .where(and(eq(selections.id, selectionId), eq(selections.workspaceId, viewer.workspace.id)));
-  if (!s) throw notFound("selection");
+  const s = await ownRow(viewer, selections, selectionId, "selection");
   return { ...s, frozen: JSON.parse(s.frozenJson) as FrozenSelection };
 }
 

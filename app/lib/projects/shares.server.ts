@@ -1,19 +1,13 @@
 // Project sharing with another workspace (the contractor): the owner lists, adds and removes
 // shares; a share opens the project's selections for field checks to the other workspace.
 import { and, eq, or } from "drizzle-orm";
-import { data } from "react-router";
 import { db } from "@db/client.server";
-import { projects, projectShares, workspaces } from "@db/schema";
+import { projectShares, workspaces } from "@db/schema";
 import type { Viewer } from "../libraries";
-
-async function ownProject(viewer: Viewer, projectId: number) {
-  const [p] = await db().select().from(projects).where(and(eq(projects.id, projectId), eq(projects.workspaceId, viewer.workspace.id)));
-  if (!p) throw data("No such project in this workspace.", { status: 404 });
-  return p;
-}
+import { getProject } from "./projects.server";
 
 export async function listShares(viewer: Viewer, projectId: number) {
-  const p = await ownProject(viewer, projectId);
+  const p = await getProject(viewer, projectId);
   const rows = await db()
     .select({ id: projectShares.id, workspaceName: workspaces.name, workspaceSlug: workspaces.slug, createdAt: projectShares.createdAt })
     .from(projectShares)
@@ -25,7 +19,7 @@ export async function listShares(viewer: Viewer, projectId: number) {
 
 /** Shares a project with the workspace of that exact name or slug. Idempotent. */
 export async function shareProject(viewer: Viewer, projectId: number, nameOrSlug: string): Promise<{ ok: true; name: string; already: boolean } | { ok: false; error: string }> {
-  const p = await ownProject(viewer, projectId);
+  const p = await getProject(viewer, projectId);
   const key = nameOrSlug.trim();
   if (!key) return { ok: false, error: "Enter the other workspace's exact name or its short name (slug)." };
   const found = await db().select({ id: workspaces.id, name: workspaces.name }).from(workspaces).where(or(eq(workspaces.slug, key.toLowerCase()), eq(workspaces.name, key))).limit(2);
@@ -40,7 +34,7 @@ export async function shareProject(viewer: Viewer, projectId: number, nameOrSlug
 }
 
 export async function unshareProject(viewer: Viewer, projectId: number, shareId: number): Promise<boolean> {
-  const p = await ownProject(viewer, projectId);
+  const p = await getProject(viewer, projectId);
   const r = await db().delete(projectShares).where(and(eq(projectShares.id, shareId), eq(projectShares.projectId, p.id)));
   return Number((r as unknown as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0) === 1;
 }

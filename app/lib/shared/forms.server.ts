@@ -110,6 +110,8 @@ export const NewPassword = v.pipe(
 export const AnyPassword = v.pipe(v.string("Enter your password."), v.minLength(1, "Enter your password."), v.maxLength(200, "Password too long."));
 export const Name = (label: string, max = 120) =>
   v.pipe(v.string(`Enter ${label}.`), v.trim(), v.minLength(1, `Enter ${label}.`), v.maxLength(max, `Keep ${label} under ${max} characters.`));
+/** Optional free text (a description, a site): trimmed, at most `max` characters. */
+export const FreeText = (what: string, max: number) => v.pipe(v.string(), v.trim(), v.maxLength(max, `Keep the ${what} under ${max} characters.`));
 export const IdField = v.pipe(v.string(), v.regex(/^\d{1,15}$/, "Bad id."), v.transform(Number));
 
 /**
