@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { copyProject, createSystem, getProject, listSelections, listSystems, setProjectArchived, updateProject } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
+import { FreeText, invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormError, Notice } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
@@ -39,8 +39,8 @@ const Intent = v.variant("intent", [
   v.object({
     intent: v.literal("edit"),
     name: Name("a project name", 160),
-    site: v.pipe(v.string(), v.trim(), v.maxLength(200)),
-    description: v.pipe(v.string(), v.trim(), v.maxLength(2000)),
+    site: FreeText("site", 200),
+    description: FreeText("description", 2000),
   }),
   v.object({ intent: v.literal("copy") }),
   v.object({ intent: v.literal("archive") }),
