@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { linkFromMailbox, signIn, signOut, uniqueEmail } from "./helpers";
+import { linkFromMailbox, signIn, signOut, signUpAndConfirm, uniqueEmail } from "./helpers";
 
 test("As a new admin I sign up, confirm my address from the mailbox, sign in again, invite a contractor, and the contractor joins", async ({ page }) => {
   const admin = uniqueEmail("admin");
@@ -8,16 +8,8 @@ test("As a new admin I sign up, confirm my address from the mailbox, sign in aga
 
   await page.goto("/signup");
   await page.getByLabel("E-mail").fill(admin);
-  await page.getByLabel("Your name").fill("Olu Admin");
-  await page.getByLabel("Password").fill(password);
   await page.getByLabel("Workspace name").fill("Olu Engineering");
-  await page.getByRole("button", { name: "Create account" }).click();
-  // The same words as for an address that already has an account; the mailed link signs in.
-  await expect(page.getByText("Check your inbox")).toBeVisible();
-
-  const verify = await linkFromMailbox(page, admin, "/verify");
-  await page.goto(verify);
-  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await signUpAndConfirm(page, admin, "Olu Admin", password);
   await expect(page.getByText("Your address is confirmed")).toBeVisible();
   await page.goto("/account");
   await expect(page.getByText("address confirmed")).toBeVisible();
@@ -40,12 +32,7 @@ test("As a new admin I sign up, confirm my address from the mailbox, sign in aga
   await expect(page.getByRole("heading", { name: "Join Olu Engineering" })).toBeVisible();
   await page.getByRole("link", { name: "Create an account" }).click();
   await expect(page.getByLabel("E-mail")).toHaveValue(contractor);
-  await page.getByLabel("Your name").fill("Sam Site");
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByText("Check your inbox")).toBeVisible();
-  await page.goto(await linkFromMailbox(page, contractor, "/verify"));
-  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await signUpAndConfirm(page, contractor, "Sam Site", password);
   await expect(page.getByRole("heading", { name: "Join Olu Engineering" })).toBeVisible();
   await page.getByRole("button", { name: "Accept and join" }).click();
   await expect(page).toHaveURL(/\/workspace$/);

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { linkFromMailbox, uniqueEmail } from "./helpers";
+import { signUpAndConfirm, uniqueEmail } from "./helpers";
 
 // Journey 3: a free workspace sees shared libraries locked; the admin upgrades through checkout on
 // the local Stripe stand-in; the webhook lands and the libraries open; cancellation locks them
@@ -19,13 +19,8 @@ async function newAdmin(page: Page, workspace: string) {
   const email = uniqueEmail("billing");
   await page.goto("/signup");
   await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Your name").fill("Bea Billing");
-  await page.getByLabel("Password").fill("a long enough password");
   await page.getByLabel("Workspace name").fill(workspace);
-  await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByText("Check your inbox")).toBeVisible();
-  await page.goto(await linkFromMailbox(page, email, "/verify"));
-  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await signUpAndConfirm(page, email, "Bea Billing", "a long enough password");
   await expect(page.getByText("Your address is confirmed")).toBeVisible();
   return email;
 }

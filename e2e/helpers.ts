@@ -38,6 +38,20 @@ export async function linkFromMailbox(page: Page, to: string, path: string): Pro
   return href;
 }
 
+/**
+ * On the sign-up form (the e-mail, and a workspace name where asked, already filled or given by an
+ * invitation): name and password, then the mailed link confirms the address.
+ */
+export async function signUpAndConfirm(page: Page, email: string, name: string, password: string) {
+  await page.getByLabel("Your name").fill(name);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Create account" }).click();
+  // The same words as for an address that already has an account; the mailed link signs in.
+  await expect(page.getByText("Check your inbox")).toBeVisible();
+  await page.goto(await linkFromMailbox(page, email, "/verify"));
+  await page.getByRole("button", { name: "Confirm my address" }).click();
+}
+
 /** Runs axe-core (injected from the package, no network) and returns serious and critical violations. */
 export async function axeViolations(page: Page) {
   // Evaluated, not added as a <script>: the page's CSP (a nonce per response) rightly refuses an inline script tag.

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { linkFromMailbox, signIn, signOut, uniqueEmail } from "./helpers";
+import { linkFromMailbox, signIn, signOut, signUpAndConfirm, uniqueEmail } from "./helpers";
 
 // Issue 17, units: a member who chose US units walks every page (home, projects, a project, the
 // system editor with candidates, the pump search, the selection report, field checks, a library,
@@ -53,12 +53,7 @@ async function newAdminInKestrel(page: Page): Promise<{ email: string; password:
   await signOut(page);
   await page.goto(await linkFromMailbox(page, email, "/invite/"));
   await page.getByRole("link", { name: "Create an account" }).click();
-  await page.getByLabel("Your name").fill("Uma Units");
-  await page.getByLabel("Password").fill(password);
-  await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByText("Check your inbox")).toBeVisible();
-  await page.goto(await linkFromMailbox(page, email, "/verify"));
-  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await signUpAndConfirm(page, email, "Uma Units", password);
   await page.getByRole("button", { name: "Accept and join" }).click();
   await expect(page.getByText("You are admin here")).toBeVisible();
   return { email, password };
