@@ -163,10 +163,6 @@ export function pidAlive(pid) {
 
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 
-/**
- * Starts (or reuses) this checkout's mariadbd on loopback, on a port of its own (see chooseDbPort).
- * Returns { socket, port, started, stop() } — stop() only stops a server this call started.
- */
 /** Makes a fresh data directory with the system tables (mariadb-install-db) unless `dir` holds one; true when it did. */
 export function initDataDir(dir, what = "") {
   if (existsSync(path.join(dir, "mysql"))) return false;
@@ -203,6 +199,10 @@ export function serverArgs({ dir, socket, pidFile, port, logFile, bufferPool }) 
   ];
 }
 
+/**
+ * Starts (or reuses) this checkout's mariadbd on loopback, on a port of its own (see chooseDbPort).
+ * Returns { socket, port, started, stop() } — stop() only stops a server this call started.
+ */
 export async function startLocalServer() {
   ensureMariadbInstalled();
   const p = localServerPaths();
