@@ -119,6 +119,7 @@ export function searchDuty(
   const grow = useSpeed ? Math.max(1, sHi) : 1;
   const trimMinRatio = 1 - maxTrim;
   const hdHigh = hd * (1 + tol);
+  const solveScale = scaleSolver(idx, qd, hd);
 
   // Every match is kept as numbers in parallel arrays (no object per match: a large library can match
   // tens of thousands of sets); only the `limit` best become Candidate objects.
@@ -135,19 +136,20 @@ export function searchDuty(
     let method = -1;
     let ratio = 1;
     let kk = 1;
-    for (const m of methods) {
+    for (let mi = 0; mi < methods.length; mi++) {
+      const m = methods[mi];
       if (m === "direct" && useDirect) {
         if (h1 !== null && h1 >= hd && h1 <= hdHigh) { method = 0; break; }
       } else if (m === "trim" && useTrim) {
         if ((h1 !== null && h1 > hd) || (h1 === null && qd < fMin[e])) {
-          const r = solveScale(idx, e, qd, hd, k, trimMinRatio, 1);
+          const r = solveScale(e, k, trimMinRatio, 1);
           const dia = idx.diameter[e], dMin = idx.minDiameter[e];
           if (r !== null && (dMin < 0 || dia < 0 || dia * r >= dMin * (1 - 1e-9))) {
             method = 1; ratio = r; kk = k; break;
           }
         }
       } else if (m === "speed" && useSpeed) {
-        const r = solveScale(idx, e, qd, hd, 1, sLo, sHi);
+        const r = solveScale(e, 1, sLo, sHi);
         if (r !== null) { method = 2; ratio = r; kk = 1; break; }
       }
     }
@@ -203,31 +205,39 @@ export function searchDuty(
   return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched } });
 }
 
-/** Ratio s in [lo, hi] with s²·H(Qd/s^k) = Hd (largest root if several); null if none. */
-function solveScale(idx: SearchIndex, e: number, qd: number, hd: number, k: number, lo: number, hi: number): number | null {
-  const qMax = idx.flowMax[e], qMin = idx.flowMin[e];
-  const sMin = Math.max(lo, k === 1 ? qd / qMax : Math.sqrt(qd / qMax));
-  const sMax = qMin > 0 ? Math.min(hi, k === 1 ? qd / qMin : Math.sqrt(qd / qMin)) : hi;
-  if (!(sMin <= sMax)) return null;
+/**
+ * Ratio s in [lo, hi] with s²·H(Qd/s^k) = Hd (largest root if several); null if none.
+ * One solver per search: its residual is one closure over a small state object (set per curve set),
+ * not a new closure per call; at catalogue scale the closures were most of a search's garbage.
+ */
+function scaleSolver(idx: SearchIndex, qd: number, hd: number) {
+  const at = { e: 0, k: 1, qMin: 0, qMax: 0 };
   // Qd/s^k is on the curve for s in [sMin, sMax] up to rounding: clamp it onto the curve (an
   // evaluation past the end by one ulp used to read as head 0 and return a false root at sMin).
-  const f = (s: number) => s * s * (evalPacked(idx.head, e, Math.min(qMax, Math.max(qMin, qd / (k === 1 ? s : s * s)))) ?? 0) - hd;
-  const fHi = f(sMax);
-  if (Math.abs(fHi) <= 1e-9 * hd) return sMax;
-  const fLo = f(sMin);
-  if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
-  if (fLo * fHi < 0) {
-    const r = brent(f, sMin, sMax, 1e-12);
-    return r ? r.x : null;
-  }
-  if (fHi < 0 || !idx.drooping[e]) return null;
-  // Drooping curve with both ends above the duty: scan for a bracket.
-  let prev = sMax, fp = fHi;
-  for (let i = 1; i <= 16; i++) {
-    const s = sMax - ((sMax - sMin) * i) / 16;
-    const fs = f(s);
-    if (fp * fs <= 0) { const r = brent(f, s, prev, 1e-12); return r ? r.x : null; }
-    prev = s; fp = fs;
-  }
-  return null;
+  const f = (s: number) => s * s * (evalPacked(idx.head, at.e, Math.min(at.qMax, Math.max(at.qMin, qd / (at.k === 1 ? s : s * s)))) ?? 0) - hd;
+  return (e: number, k: number, lo: number, hi: number): number | null => {
+    const qMax = idx.flowMax[e], qMin = idx.flowMin[e];
+    const sMin = Math.max(lo, k === 1 ? qd / qMax : Math.sqrt(qd / qMax));
+    const sMax = qMin > 0 ? Math.min(hi, k === 1 ? qd / qMin : Math.sqrt(qd / qMin)) : hi;
+    if (!(sMin <= sMax)) return null;
+    at.e = e; at.k = k; at.qMin = qMin; at.qMax = qMax;
+    const fHi = f(sMax);
+    if (Math.abs(fHi) <= 1e-9 * hd) return sMax;
+    const fLo = f(sMin);
+    if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
+    if (fLo * fHi < 0) {
+      const r = brent(f, sMin, sMax, 1e-12);
+      return r ? r.x : null;
+    }
+    if (fHi < 0 || !idx.drooping[e]) return null;
+    // Drooping curve with both ends above the duty: scan for a bracket.
+    let prev = sMax, fp = fHi;
+    for (let i = 1; i <= 16; i++) {
+      const s = sMax - ((sMax - sMin) * i) / 16;
+      const fs = f(s);
+      if (fp * fs <= 0) { const r = brent(f, s, prev, 1e-12); return r ? r.x : null; }
+      prev = s; fp = fs;
+    }
+    return null;
+  };
 }
