@@ -1,12 +1,9 @@
-// React Router's default Node entry (7.18), plus the CSP nonce: app/serve.mjs makes one per request
+// React Router's default Node entry (7.18), rendered whole (see onAllReady below), plus the CSP nonce: app/serve.mjs makes one per request
 // and hands it over in a request header it overwrites; <ServerRouter nonce> gives it to <Scripts>,
 // <ScrollRestoration> and <Links>, and React's own inline scripts get it from renderToPipeableStream.
-import { PassThrough } from "node:stream";
+import { Writable } from "node:stream";
 import type { EntryContext } from "react-router";
-import { createReadableStreamFromReadable } from "@react-router/node";
 import { ServerRouter } from "react-router";
-import { isbot } from "isbot";
-import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
 import { assertSettings } from "~/lib/shared/env.server";
 
@@ -29,24 +26,30 @@ export default function handleRequest(request: Request, responseStatusCode: numb
   const nonce = /^[A-Za-z0-9+/=_-]{16,64}$/.test(raw) ? raw : undefined;
   return new Promise((resolve, reject) => {
     let shellRendered = false;
-    const userAgent = request.headers.get("user-agent");
-    const readyOption: keyof RenderToPipeableStreamOptions = (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
     let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
     const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
       nonce,
-      [readyOption]() {
+      // The whole document at once, in one chunk. No route streams deferred data (no <Await>/<Suspense>),
+      // and React Router's Node adapter writes and flushes every chunk it is given: React's 2 KB chunks
+      // each became a compression flush (a zlib round trip and a worse ratio), a third of a 70 KB
+      // page's server time (measured: 12.4 ms against 8.6 ms without compression, before this change).
+      onAllReady() {
         shellRendered = true;
-        const body = new PassThrough({
+        const chunks: Buffer[] = [];
+        const whole = new Writable({
+          write(chunk: Buffer, _encoding, callback) {
+            chunks.push(chunk);
+            callback();
+          },
           final(callback) {
             clearTimeout(timeoutId);
             timeoutId = undefined;
+            responseHeaders.set("Content-Type", "text/html");
+            resolve(new Response(Buffer.concat(chunks), { headers: responseHeaders, status: responseStatusCode }));
             callback();
           },
         });
-        const stream = createReadableStreamFromReadable(body);
-        responseHeaders.set("Content-Type", "text/html");
-        pipe(body);
-        resolve(new Response(stream, { headers: responseHeaders, status: responseStatusCode }));
+        pipe(whole);
       },
       onShellError(error: unknown) {
         reject(error);

@@ -7,6 +7,7 @@
 //  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
 //  - a clean stop on SIGTERM/SIGINT (HTTP server closed, then the process exits so the DB pool ends).
 import http from "node:http";
+import fs from "node:fs";
 import crypto from "node:crypto";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
@@ -128,6 +129,17 @@ function bodyLimit(req, res, next) {
 const app = express();
 app.disable("x-powered-by");
 if (trustProxy) app.set("trust proxy", true);
+// First, so a request's logged time is all Express does for it: from here to the last byte handed to the socket.
+if (settings.accessLog) {
+  app.use((req, res, next) => {
+    const t0 = process.hrtime.bigint();
+    res.on("finish", () => {
+      const ms = Number(process.hrtime.bigint() - t0) / 1e6;
+      process.stdout.write(`${req.method} ${req.originalUrl} ${res.statusCode} ${ms.toFixed(1)} ms\n`);
+    });
+    next();
+  });
+}
 app.use(compression());
 app.use((req, res, next) => {
   // Overwrites anything a client sent under these names.
@@ -139,17 +151,11 @@ app.use((req, res, next) => {
 app.use(securityHeaders);
 const assetsDir = path.join(path.dirname(buildPath), "..", "client");
 app.use("/assets", express.static(path.join(assetsDir, "assets"), { immutable: true, maxAge: "1y" }));
-app.use(express.static(assetsDir, { maxAge: "1h" }));
-if (settings.accessLog) {
-  app.use((req, res, next) => {
-    const t0 = process.hrtime.bigint();
-    res.on("finish", () => {
-      const ms = Number(process.hrtime.bigint() - t0) / 1e6;
-      process.stdout.write(`${req.method} ${req.originalUrl} ${res.statusCode} ${ms.toFixed(1)} ms\n`);
-    });
-    next();
-  });
-}
+// The public folder's files (service worker, manifest, icons), looked up only under their own top-level
+// names: a page's path never waits on a file-system lookup that fails (one per page request before).
+const publicNames = new Set(fs.readdirSync(assetsDir).filter((name) => name !== "assets"));
+const publicFiles = express.static(assetsDir, { maxAge: "1h" });
+app.use((req, res, next) => (publicNames.has(req.path.split("/")[1]) ? publicFiles(req, res, next) : next()));
 app.use(bodyLimit);
 app.all("*", createRequestHandler({ build, mode: process.env.NODE_ENV }));
 // After a 413 the app's own answer (its body read failed) has nowhere to go: drop it quietly.

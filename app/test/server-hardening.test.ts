@@ -114,6 +114,50 @@ describe.skipIf(!built)("headers", () => {
   });
 });
 
+const SYNC_FLUSH = Buffer.from([0x00, 0x00, 0xff, 0xff]);
+
+describe.skipIf(!built)("documents and files", () => {
+  test("a compressed page is compressed whole: no flush per React chunk (a gzip sync flush leaves the bytes 00 00 ff ff)", async () => {
+    const raw = await new Promise<Buffer>((resolve, reject) => {
+      http.get({ host: "127.0.0.1", port, path: "/projects", headers: { cookie, "accept-encoding": "gzip" } }, (res) => {
+        const parts: Buffer[] = [];
+        res.on("data", (b: Buffer) => parts.push(b));
+        res.on("end", () => resolve(Buffer.concat(parts)));
+      }).on("error", reject);
+    });
+    expect(raw.length).toBeGreaterThan(1000);
+    let flushes = 0;
+    for (let i = raw.indexOf(SYNC_FLUSH); i >= 0; i = raw.indexOf(SYNC_FLUSH, i + 1)) flushes++;
+    // Before: one sync flush per 2 KB chunk React wrote (a dozen or more on this page); now none, or one by chance in the data.
+    expect(flushes).toBeLessThanOrEqual(1);
+  });
+
+  test("a compressed page arrives as one complete document, gzip and brotli", async () => {
+    for (const encoding of ["gzip", "br"]) {
+      const r = await fetch(`${base}/projects`, { headers: { cookie, "accept-encoding": encoding } });
+      expect(r.status).toBe(200);
+      expect(r.headers.get("content-encoding")).toBe(encoding); // fetch decodes it for us below
+      const html = await r.text();
+      expect(html.startsWith("<!DOCTYPE html>")).toBe(true);
+      expect(html.trimEnd().endsWith("</html>")).toBe(true);
+      expect(html).toContain("window.__reactRouterContext");
+    }
+  });
+
+  test("public files are served under their own names; any other path reaches the router (its 404 page, not a file lookup)", async () => {
+    const sw = await fetch(`${base}/sw.js`);
+    expect(sw.status).toBe(200);
+    expect(sw.headers.get("content-type")).toMatch(/javascript/);
+    const manifest = await fetch(`${base}/field.webmanifest`);
+    expect(manifest.status).toBe(200);
+    expect(JSON.parse(await manifest.text())).toHaveProperty("name");
+    const stray = await fetch(`${base}/no-such-file.js`);
+    expect(stray.status).toBe(404);
+    expect(stray.headers.get("content-type")).toMatch(/text\/html/); // the app's own not-found page
+    expect(await stray.text()).toContain("</html>");
+  });
+});
+
 describe.skipIf(!built)("body limits on the bytes read", () => {
   test("a chunked 3 MB POST to /signin is cut at 1 MB with 413 (no sign-in needed)", async () => {
     const r = await send("/signin", 3 * 1024 * 1024);
