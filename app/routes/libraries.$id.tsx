@@ -19,7 +19,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
-import { fmtDateTime } from "~/lib/shared/format";
+import { fmtDateTime, fmtInt } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -133,18 +133,10 @@ export default function LibraryPage() {
     <div className="space-y-6">
       <PageHead
         trail={[["/libraries", "Pump libraries"]]}
-        titleClass="flex flex-wrap items-center gap-3"
-        title={
-          <>
-            {d.lib.name} <AccessBadge access={d.lib.access} visibility={d.lib.visibility} />
-          </>
-        }
-      >
-        <p className="text-sm text-slate-600">
-          by {d.lib.owner}
-          {d.lib.description ? ` · ${d.lib.description}` : ""}
-        </p>
-      </PageHead>
+        title={d.lib.name}
+        badge={<AccessBadge access={d.lib.access} visibility={d.lib.visibility} />}
+        line={[`by ${d.lib.owner}`, d.lib.description]}
+      />
       {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />
       {d.locked ? (
@@ -265,9 +257,9 @@ export default function LibraryPage() {
                       {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
                     </td>
                     <td>{fmtDateTime(r.at)} UTC</td>
-                    <td>{r.curves}</td>
-                    <td>{r.points}</td>
-                    <td>{r.skipped}</td>
+                    <td>{fmtInt(r.curves)}</td>
+                    <td>{fmtInt(r.points)}</td>
+                    <td>{fmtInt(r.skipped)}</td>
                     <td>{r.note}</td>
                   </tr>
                 ))}

@@ -1,16 +1,17 @@
 import * as v from "valibot";
-import { Form, redirect, useLoaderData } from "react-router";
+import { Form, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries";
-import { requireMember } from "~/lib/auth/guards.server";
+import { createAsMember, requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { createLibrary, listLibraries } from "~/lib/libraries";
 import { can } from "~/lib/auth/permissions";
-import { FreeText, invalid, Name, readForm } from "~/lib/shared/forms.server";
+import { FreeText, Name } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { useFormResult } from "~/components/useFormResult";
 import { ListTable, NameCell } from "~/components/ListTable";
+import { fmtInt } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Pump libraries · Dutymark" }];
 
@@ -25,13 +26,7 @@ const Schema = v.object({
   description: FreeText("description", 1000),
 });
 
-export async function action({ request }: Route.ActionArgs) {
-  const m = await requireMember(request, "library.write");
-  const r = await readForm(request, Schema);
-  if (!r.ok) return invalid(r.errors);
-  const id = await createLibrary(viewerOf(m), r.value);
-  throw redirect(`/libraries/${id}`);
-}
+export const action = ({ request }: Route.ActionArgs) => createAsMember(request, "library.write", Schema, createLibrary, (id) => `/libraries/${id}`);
 
 export default function Libraries() {
   const d = useLoaderData<typeof loader>();
@@ -81,8 +76,8 @@ function LibraryTable({ list, empty }: { list: ReturnType<typeof useLoaderData<t
             {l.description ? <div className="text-xs text-slate-600">{l.description}</div> : null}
           </NameCell>
           <td>{l.owner}</td>
-          <td>{l.modelCount}</td>
-          <td>{l.curveCount}</td>
+          <td>{fmtInt(l.modelCount)}</td>
+          <td>{fmtInt(l.curveCount)}</td>
           <td>{l.revision ? `#${l.revision}` : "—"}</td>
           <td>
             <AccessBadge access={l.access} visibility={l.visibility} />

@@ -78,17 +78,10 @@ export default function ProjectPage() {
     <div className="space-y-6">
       <PageHead
         trail={[["/projects", "Projects"]]}
-        title={
-          <>
-            {d.project.name} {d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
-          </>
-        }
-      >
-        <p className="text-sm text-slate-600">
-          {d.project.site}
-          {d.project.description ? ` · ${d.project.description}` : ""}
-        </p>
-      </PageHead>
+        title={d.project.name}
+        badge={d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
+        line={[d.project.site, d.project.description]}
+      />
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
       {notice ? <Notice>{notice}</Notice> : null}
       <FormError error={errors._form} />

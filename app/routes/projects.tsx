@@ -1,11 +1,11 @@
 import * as v from "valibot";
-import { Form, redirect, useLoaderData } from "react-router";
+import { Form, useLoaderData } from "react-router";
 import type { Route } from "./+types/projects";
-import { requireMember } from "~/lib/auth/guards.server";
+import { createAsMember, requireMember } from "~/lib/auth/guards.server";
 import { createProject, listProjects } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
-import { FreeText, invalid, Name, QueryFlag, readForm, readQuery } from "~/lib/shared/forms.server";
+import { FreeText, Name, QueryFlag, readQuery } from "~/lib/shared/forms.server";
 import { Field } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { useFormResult } from "~/components/useFormResult";
@@ -25,13 +25,7 @@ const Schema = v.object({
   description: FreeText("description", 2000),
 });
 
-export async function action({ request }: Route.ActionArgs) {
-  const m = await requireMember(request, "project.write");
-  const r = await readForm(request, Schema);
-  if (!r.ok) return invalid(r.errors);
-  const id = await createProject(viewerOf(m), r.value);
-  throw redirect(`/projects/${id}`);
-}
+export const action = ({ request }: Route.ActionArgs) => createAsMember(request, "project.write", Schema, createProject, (id) => `/projects/${id}`);
 
 export default function Projects() {
   const d = useLoaderData<typeof loader>();

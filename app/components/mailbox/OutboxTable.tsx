@@ -1,4 +1,6 @@
-// The latest outbox rows on the development mailbox page: sent, or waiting with the last error.
+// The latest outbox rows on the development mailbox page (a record list like the others): sent, or waiting with the last error.
+import { ListTable } from "../ListTable";
+
 export type OutboxRowView = { id: number; toAddress: string; subject: string; attempts: number; lastError: string | null; sentAt: string | null; createdAt: string };
 
 /** "2026-12-01 22:54:55 UTC": the same on server and client, so hydration matches. */
@@ -7,37 +9,26 @@ const utc = (iso: string | null) => (iso ? `${iso.replace("T", " ").slice(0, 19)
 export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm">
-        <thead className="text-xs uppercase tracking-wide text-slate-500">
-          <tr>
-            {["#", "To", "Subject", "Written", "State"].map((h) => (
-              <th key={h} className="py-1 pr-3 font-semibold">
-                {h}
-              </th>
-            ))}
+      <ListTable head={["#", "To", "Subject", "Written", "State"]} className="">
+        {rows.map((r) => (
+          <tr key={r.id} className="border-t border-slate-100 align-top">
+            <td className="py-1 pr-3 tabular-nums text-slate-500">{r.id}</td>
+            <td className="pr-3">{r.toAddress}</td>
+            <td className="pr-3">{r.subject}</td>
+            <td className="pr-3 tabular-nums text-slate-600">{utc(r.createdAt)}</td>
+            <td>
+              {r.sentAt ? (
+                <span className="text-pass">sent {utc(r.sentAt)}</span>
+              ) : (
+                <span className="text-duty-ink">
+                  waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}
+                  {r.lastError ? <span className="block text-xs text-slate-600">{r.lastError}</span> : null}
+                </span>
+              )}
+            </td>
           </tr>
-        </thead>
-        <tbody className="divide-y divide-slate-100">
-          {rows.map((r) => (
-            <tr key={r.id} className="align-top">
-              <td className="py-1 pr-3 tabular-nums text-slate-500">{r.id}</td>
-              <td className="py-1 pr-3">{r.toAddress}</td>
-              <td className="py-1 pr-3">{r.subject}</td>
-              <td className="py-1 pr-3 tabular-nums text-slate-600">{utc(r.createdAt)}</td>
-              <td className="py-1 pr-3">
-                {r.sentAt ? (
-                  <span className="text-pass">sent {utc(r.sentAt)}</span>
-                ) : (
-                  <span className="text-duty-ink">
-                    waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}
-                    {r.lastError ? <span className="block text-xs text-slate-600">{r.lastError}</span> : null}
-                  </span>
-                )}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+        ))}
+      </ListTable>
     </div>
   );
 }

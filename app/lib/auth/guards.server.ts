@@ -1,4 +1,5 @@
 // Throwing guards, called first in every loader and action. The server decides; the UI only hides.
+import type * as v from "valibot";
 import { data, redirect } from "react-router";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
@@ -10,6 +11,8 @@ import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
 import { oncePerRequest } from "../shared/request-scope.server";
+import { invalid, readForm } from "../shared/forms.server";
+import { viewerOf, type Viewer } from "./viewer.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
 export type Member = Auth & {
@@ -65,6 +68,24 @@ export async function requireMember(request: Request, permission?: Permission): 
     throw data(`Your role (${role}) in ${workspace.name} does not allow this.`, { status: 403 });
   }
   return { ...auth, workspace, role, workspaces: list };
+}
+
+/**
+ * The action of a workspace's "new …" form: a member with `permission` (else 401/403 as `requireMember`), the
+ * form read with `schema`, then its field errors (400) or `create` and a redirect to `page(id)`; a post without
+ * JavaScript lands there too.
+ */
+export async function createAsMember<S extends v.GenericSchema>(
+  request: Request,
+  permission: Permission,
+  schema: S,
+  create: (viewer: Viewer, value: v.InferOutput<S>) => Promise<number>,
+  page: (id: number) => string,
+) {
+  const m = await requireMember(request, permission);
+  const r = await readForm(request, schema);
+  if (!r.ok) return invalid(r.errors);
+  throw redirect(page(await create(viewerOf(m), r.value)));
 }
 
 export type ApiCaller = {

@@ -21,7 +21,7 @@ import {
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
-import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
+import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, withRevision, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
 
 export const MAX_CANDIDATES = 6;
@@ -170,16 +170,12 @@ export async function archiveSystem(viewer: Viewer, systemId: number) {
 // ── Candidates ──────────────────────────────────────────────────────────────────────────────
 /** Curve set ids the viewer may use (their revision belongs to a library open to them). */
 async function openCurveSet(viewer: Viewer, curveSetId: number) {
-  const [row] = await db()
-    .select({ set: curveSets, libraryId: libraryRevisions.libraryId, revisionId: libraryRevisions.id })
-    .from(curveSets)
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
-    .where(eq(curveSets.id, curveSetId));
-  if (!row) throw data("No such pump curve.", { status: 404 });
+  const found = await withRevision(curveSets, curveSetId);
+  if (!found) throw data("No such pump curve.", { status: 404 });
   const { open } = await searchableRevisions(viewer);
   // A candidate may keep an older revision of an open library: the library must be open, not the revision current.
-  if (!open.some((o) => o.libraryId === row.libraryId)) throw data("No such pump curve in your reach.", { status: 404 });
-  return row;
+  if (!open.some((o) => o.libraryId === found.libraryId)) throw data("No such pump curve in your reach.", { status: 404 });
+  return found.row;
 }
 
 export type CandidateView = {
