@@ -6,6 +6,7 @@ import type { EntryContext } from "react-router";
 import { ServerRouter } from "react-router";
 import { renderToPipeableStream } from "react-dom/server";
 import { assertSettings } from "~/lib/shared/env.server";
+import { encodeDocument } from "~/lib/shared/encode-document.server";
 
 /**
  * Every setting, validated once when the server build is loaded: a missing or bad value stops the
@@ -33,6 +34,7 @@ export default function handleRequest(request: Request, responseStatusCode: numb
       // and React Router's Node adapter writes and flushes every chunk it is given: React's 2 KB chunks
       // each became a compression flush (a zlib round trip and a worse ratio), a third of a 70 KB
       // page's server time (measured: 12.4 ms against 8.6 ms without compression, before this change).
+      // That one chunk is then compressed in one call (encode-document.server.ts).
       onAllReady() {
         shellRendered = true;
         const chunks: Buffer[] = [];
@@ -45,7 +47,10 @@ export default function handleRequest(request: Request, responseStatusCode: numb
             clearTimeout(timeoutId);
             timeoutId = undefined;
             responseHeaders.set("Content-Type", "text/html");
-            resolve(new Response(Buffer.concat(chunks), { headers: responseHeaders, status: responseStatusCode }));
+            responseHeaders.append("Vary", "Accept-Encoding");
+            const { body, encoding } = encodeDocument(request.headers.get("accept-encoding"), Buffer.concat(chunks));
+            if (encoding) responseHeaders.set("Content-Encoding", encoding);
+            resolve(new Response(body, { headers: responseHeaders, status: responseStatusCode }));
             callback();
           },
         });

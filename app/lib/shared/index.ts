@@ -2,7 +2,8 @@
 // `.server` modules; browser code imports the pure files by path: `csv`, `constants`). Input reading
 // (forms.server), the one CSV writer (csv), the user's units per quantity (units) and number/date
 // formatting (format), settings (env.server), problem+json (problem.server,
-// api-errors.server), rate limits, health, the lists the schema shares (constants). `body-limits.mjs`
+// api-errors.server), rate limits, health, the lists the schema shares (constants). `encode-document.server`
+// (a whole page compressed at once) is app/entry.server.tsx's alone. `body-limits.mjs`
 // is read by `app/serve.mjs` too and is imported by path.
 export * from "./forms.server";
 export * from "./csv";
