@@ -3,6 +3,7 @@
 import type { Verdict } from "~/lib/fieldchecks";
 import { VerdictBadge } from "./fieldcheck";
 import { fmtFlow, fmtHead, type UnitChoice } from "./units";
+import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it. */
 export type SelectionCheckRow = {
@@ -47,7 +48,7 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
             {checks.map((c) => (
               <tr key={c.id} className={`border-t border-slate-100 align-top ${c.superseded ? "text-slate-500" : ""}`}>
                 <td className="py-1">
-                  {c.createdAt.slice(0, 16).replace("T", " ")}
+                  {fmtDateTime(c.createdAt)}
                   {c.version > 1 ? <span className="text-xs"> · version {c.version}</span> : null}
                   {c.superseded ? <span className="text-xs"> · amended since</span> : null}
                 </td>
@@ -64,7 +65,7 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                 </td>
                 <td className="max-w-xs text-xs">{c.rule}</td>
                 <td>
-                  <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${c.createdAt.slice(0, 10)}`}>
+                  <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.createdAt)}`}>
                     Open
                   </a>
                 </td>

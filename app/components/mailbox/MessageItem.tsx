@@ -2,9 +2,7 @@
 // the HTML part in a sandboxed frame.
 import type { MailboxMessage } from "~/lib/mail/mailbox-message";
 import { Linkified } from "./Linkified";
-
-/** "2026-12-01 22:54:55 UTC": the same on server and client, so hydration matches. */
-const utc = (iso: string | null) => (iso ? `${iso.replace("T", " ").slice(0, 19)} UTC` : "—");
+import { fmtUtcSeconds } from "~/lib/shared/format";
 
 /** The HTML part in a sandbox without scripts or same-origin access; its links open a new tab. */
 function htmlForFrame(html: string): string {
@@ -19,7 +17,7 @@ export function MessageItem({ m, open }: { m: MailboxMessage; open: boolean }) {
         <span className="min-w-0 flex-1 font-semibold text-slate-900">{m.subject || "(no subject)"}</span>
         <span className="text-sm text-slate-600">to {[...new Set([...m.to, ...m.envelope.to])].join(", ")}</span>
         <time className="text-xs tabular-nums text-slate-500" dateTime={m.receivedAt}>
-          {utc(m.receivedAt)}
+          {fmtUtcSeconds(m.receivedAt)}
         </time>
       </summary>
       <div className="space-y-3 border-t border-slate-200 px-3 py-3">

@@ -1,10 +1,8 @@
 // The latest outbox rows on the development mailbox page (a record list like the others): sent, or waiting with the last error.
 import { ListTable } from "../ListTable";
+import { fmtUtcSeconds } from "~/lib/shared/format";
 
 export type OutboxRowView = { id: number; toAddress: string; subject: string; attempts: number; lastError: string | null; sentAt: string | null; createdAt: string };
-
-/** "2026-12-01 22:54:55 UTC": the same on server and client, so hydration matches. */
-const utc = (iso: string | null) => (iso ? `${iso.replace("T", " ").slice(0, 19)} UTC` : "—");
 
 export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
   return (
@@ -15,10 +13,10 @@ export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
             <td className="py-1 pr-3 tabular-nums text-slate-500">{r.id}</td>
             <td className="pr-3">{r.toAddress}</td>
             <td className="pr-3">{r.subject}</td>
-            <td className="pr-3 tabular-nums text-slate-600">{utc(r.createdAt)}</td>
+            <td className="pr-3 tabular-nums text-slate-600">{fmtUtcSeconds(r.createdAt)}</td>
             <td>
               {r.sentAt ? (
-                <span className="text-pass">sent {utc(r.sentAt)}</span>
+                <span className="text-pass">sent {fmtUtcSeconds(r.sentAt)}</span>
               ) : (
                 <span className="text-duty-ink">
                   waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}

@@ -14,7 +14,7 @@ const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
 
 const DATE_PARTS = new Intl.DateTimeFormat("en-GB", {
-  timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23",
+  timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit", hourCycle: "h23",
 });
 
 function parts(when: string | Date | null | undefined): Record<string, string> | null {
@@ -32,8 +32,14 @@ export function fmtDate(when: string | Date | null | undefined): string {
   return p ? `${p.year}-${p.month}-${p.day}` : "—";
 }
 
-/** A moment (UTC) as "2026-12-02 14:09"; the caller adds " UTC" where the page says so. */
-export function fmtDateTime(when: string | Date | null | undefined): string {
+/** A moment (UTC) as "2026-12-02 14:09" (with `seconds`, "2026-12-02 14:09:05"); the caller adds " UTC" where the page says so. */
+export function fmtDateTime(when: string | Date | null | undefined, opts: { seconds?: boolean } = {}): string {
   const p = parts(when);
-  return p ? `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}` : "—";
+  return p ? `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}${opts.seconds ? `:${p.second}` : ""}` : "—";
+}
+
+/** A moment to the second with its zone, "2026-12-01 22:54:55 UTC" (mail logs); "—" when missing. */
+export function fmtUtcSeconds(when: string | Date | null | undefined): string {
+  const t = fmtDateTime(when, { seconds: true });
+  return t === "—" ? t : `${t} UTC`;
 }
