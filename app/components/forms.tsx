@@ -68,6 +68,16 @@ export function Notice({ children }: { children: ReactNode }) {
   );
 }
 
+/** What the last action said to the whole page: its notice (done) and its form-level error, each only when there is one. */
+export function FormOutcome({ notice, error }: { notice?: string | null; error?: string }) {
+  return (
+    <>
+      {notice ? <Notice>{notice}</Notice> : null}
+      <FormError error={error} />
+    </>
+  );
+}
+
 export function Card({ title, children, narrow }: { title: string; children: ReactNode; narrow?: boolean }) {
   return (
     <section className={`panel ${narrow ? "mx-auto max-w-md" : ""}`}>

@@ -9,7 +9,7 @@ import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf, renderUnits } from "~/comp
 import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
-import { Field, FormError, Notice } from "~/components/forms";
+import { Field, FormOutcome, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
 import { UploadDrop } from "~/components/UploadDrop";
 import { ImportList } from "~/components/ImportList";
@@ -137,8 +137,7 @@ export default function LibraryPage() {
         badge={<AccessBadge access={d.lib.access} visibility={d.lib.visibility} />}
         line={[`by ${d.lib.owner}`, d.lib.description]}
       />
-      {notice ? <Notice>{notice}</Notice> : null}
-      <FormError error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form} />
       {d.locked ? (
         <section className="panel">
           <p className="caution">

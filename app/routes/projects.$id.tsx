@@ -6,7 +6,7 @@ import { copyProject, createSystem, getProject, listSelections, listSystems, set
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
-import { Field, FormError, Notice } from "~/components/forms";
+import { Field, FormOutcome } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -83,8 +83,7 @@ export default function ProjectPage() {
         line={[d.project.site, d.project.description]}
       />
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
-      {notice ? <Notice>{notice}</Notice> : null}
-      <FormError error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form} />
       <section className="panel">
         <h2 className="text-lg font-semibold">Systems</h2>
         {d.systems.length === 0 ? (

@@ -20,7 +20,7 @@ import {
   type InvoiceRow,
   paidPlanPrice,
 } from "~/lib/billing";
-import { FormError, Notice } from "~/components/forms";
+import { FormOutcome, Notice } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
@@ -155,8 +155,7 @@ export default function Billing() {
         </Notice>
       ) : null}
       {d.checkout === "canceled" ? <Notice>Checkout closed without paying. Nothing changed.</Notice> : null}
-      {notice ? <Notice>{notice}</Notice> : null}
-      <FormError error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form} />
 
       <section className="panel space-y-2" aria-labelledby="plan-h">
         <h2 id="plan-h" className="text-lg font-semibold">

@@ -6,7 +6,7 @@ import { requireMember, setCurrentWorkspace } from "~/lib/auth/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions";
 import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
 import { data } from "react-router";
-import { Field, FormError, Notice, Options } from "~/components/forms";
+import { Field, FormOutcome, Options } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PostButton } from "~/components/PostButton";
 import { ListTable } from "~/components/ListTable";
@@ -98,8 +98,7 @@ export default function Workspace() {
           <a href="/workspace/billing">Plan and billing</a>
         </p>
       </div>
-      {notice ? <Notice>{notice}</Notice> : null}
-      <FormError error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form} />
 
       {d.workspaces.length > 1 ? (
         <section className="panel">
