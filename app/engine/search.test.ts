@@ -1,7 +1,8 @@
 /** Tier 3 — duty-point search: correctness, agreement with affinity/trim, ranking reasons. */
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, EngineInputError, headAt, joinSearchIndexes, prepareSearchIndex, scaleBySpeed, scaleByTrim, searchDuty, type CurveSet } from "./index.ts";
-import { generateCurveSets, makeCurve } from "./test/curveSets.ts";
+import { generateCurveSets, makeCurve, rng } from "./test/curveSets.ts";
+import { bestMatches } from "./search.ts";
 
 const M3H = 1 / 3600;
 const duty = { flow: 50 * M3H, head: 30 };
@@ -143,5 +144,38 @@ describe("searchDuty over 10 000 generated curve sets (size check; timing is in 
       expect(h).toBeLessThanOrEqual(45 * 1.05 * (1 + 1e-9));
     }
     for (let i = 1; i < r.candidates.length; i++) expect(r.candidates[i].score).toBeLessThanOrEqual(r.candidates[i - 1].score);
+  });
+});
+
+describe("bestMatches: the first `limit` of a full sort, without sorting every match", () => {
+  // Property sweep (seeded): scores with many ties (a few distinct values, ±0 among them), ids in random order.
+  it("equals sorting all and keeping the first `limit`, for every size and limit tried", () => {
+    const r = rng(17);
+    for (let trial = 0; trial < 300; trial++) {
+      const n = Math.floor(r() * 60);
+      const levels = 1 + Math.floor(r() * 6);
+      const score = Float64Array.from({ length: n }, () => (r() < 0.1 ? (r() < 0.5 ? -0 : 0) : Math.floor(r() * levels) / levels));
+      const ids = Array.from({ length: n }, (_, j) => `id-${Math.floor(r() * 1000)}-${j}`);
+      const order = (a: number, b: number) => score[b] - score[a] || (ids[a] < ids[b] ? -1 : ids[a] > ids[b] ? 1 : 0);
+      for (const limit of [1, 2, 5, n - 1, n, n + 3].filter((x) => x >= 1)) {
+        const full = Array.from({ length: n }, (_, j) => j).sort(order).slice(0, limit);
+        expect(bestMatches(score, limit, order)).toEqual(full); // source: definition (the reference is the full sort)
+      }
+    }
+  });
+
+  it("keeps every tie at the cut before choosing by id", () => {
+    const score = Float64Array.from([0.5, 0.9, 0.5, 0.5, 0.1]);
+    const ids = ["c", "a", "b", "a2", "z"];
+    const order = (a: number, b: number) => score[b] - score[a] || (ids[a] < ids[b] ? -1 : ids[a] > ids[b] ? 1 : 0);
+    expect(bestMatches(score, 2, order)).toEqual([1, 3]); // 0.9 first, then the tie at 0.5 broken by id: "a2" < "b" < "c" (hand-worked case)
+    expect(bestMatches(score, 4, order)).toEqual([1, 3, 2, 0]); // hand-worked case
+  });
+
+  it("a NaN score (none is made today) does not lose matches: all are sorted as before", () => {
+    const score = Float64Array.from([NaN, NaN, 0.3, 0.7]);
+    const order = (a: number, b: number) => (score[b] - score[a]) || a - b;
+    expect(bestMatches(score, 1, order).length).toBe(1); // source: definition (one row asked, one row given)
+    expect(bestMatches(score, 4, order).sort()).toEqual([0, 1, 2, 3]); // source: definition (no match dropped)
   });
 });

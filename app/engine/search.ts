@@ -186,10 +186,8 @@ export function searchDuty(
     if (shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (shaftPower / minPower - 1);
     score[j] = s;
   }
-  const order = Array.from({ length: matched }, (_, j) => j);
   const ids = idx.ids;
-  order.sort((a, b) => score[b] - score[a] || (ids[fE[a]] < ids[fE[b]] ? -1 : ids[fE[a]] > ids[fE[b]] ? 1 : 0));
-  const top: Candidate[] = order.slice(0, limit).map((j) => {
+  const top: Candidate[] = bestMatches(score, limit, (a, b) => score[b] - score[a] || (ids[fE[a]] < ids[fE[b]] ? -1 : ids[fE[a]] > ids[fE[b]] ? 1 : 0)).map((j) => {
     const e = fE[j], method = METHODS[fMethod[j]], ratio = fRatio[j], bepRatio = fBep[j];
     const warnings: EngineWarning[] = [];
     if (method === "trim") warnings.push({ code: "trim-approximate", message: `trim by the ${law} law is approximate` });
@@ -203,6 +201,24 @@ export function searchDuty(
   });
   explainRanks(top, matched, reqMargin);
   return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched } });
+}
+
+/**
+ * The `limit` best matches in `order` (score high to low, then id), the same as sorting them all and
+ * keeping the first `limit`: only the matches scoring at least the limit-th best score are sorted by
+ * `order`; that cut is found by a native sort of the scores alone. (A comparator sort of every match,
+ * thousands at catalogue scale, cost more than the rest of the ranking.)
+ * @param score each match's score (dimensionless; higher is better)
+ * @param limit how many to keep (count)
+ * @param order the full order's comparator over match positions (count; negative: a before b)
+ */
+export function bestMatches(score: Float64Array, limit: number, order: (a: number, b: number) => number): number[] {
+  const n = score.length;
+  const picked: number[] = [];
+  const cut = n > limit ? Float64Array.from(score).sort()[n - limit] : -Infinity; // ascending: the limit-th largest
+  // A NaN score (none is made today) would sort last and poison the cut: then every match is sorted.
+  for (let j = 0; j < n; j++) if (!(score[j] < cut)) picked.push(j);
+  return picked.sort(order).slice(0, limit);
 }
 
 /**
