@@ -48,10 +48,14 @@ export default function handleRequest(request: Request, responseStatusCode: numb
             timeoutId = undefined;
             responseHeaders.set("Content-Type", "text/html");
             responseHeaders.append("Vary", "Accept-Encoding");
-            const { body, encoding } = encodeDocument(request.headers.get("accept-encoding"), Buffer.concat(chunks));
-            if (encoding) responseHeaders.set("Content-Encoding", encoding);
-            resolve(new Response(body, { headers: responseHeaders, status: responseStatusCode }));
-            callback();
+            encodeDocument(request.headers.get("accept-encoding"), Buffer.concat(chunks)).then(({ body, encoding }) => {
+              if (encoding) responseHeaders.set("Content-Encoding", encoding);
+              resolve(new Response(body, { headers: responseHeaders, status: responseStatusCode }));
+              callback();
+            }, (error: unknown) => {
+              reject(error);
+              callback();
+            });
           },
         });
         pipe(whole);

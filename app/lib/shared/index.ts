@@ -3,7 +3,7 @@
 // (forms.server), the one CSV writer (csv), the user's units per quantity (units) and number/date
 // formatting (format), settings (env.server), problem+json (problem.server,
 // api-errors.server), rate limits, health, the lists the schema shares (constants). `encode-document.server`
-// (a whole page compressed at once) is app/entry.server.tsx's alone. `body-limits.mjs`
+// (a whole page compressed at once: inline up to 256 KB, on the thread pool past that) is app/entry.server.tsx's alone. `body-limits.mjs`
 // is read by `app/serve.mjs` too and is imported by path.
 export * from "./forms.server";
 export * from "./csv";
