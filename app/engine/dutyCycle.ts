@@ -145,9 +145,6 @@ export interface DutyCycleInput {
   minSpeedRatio?: number;
 }
 
-const m3h = (q: number) => qt("flow", q);
-const m = (h: number) => qt("head", h);
-
 /**
  * Operating point, speed, efficiencies, electrical input and energy at each step, and the total per year.
  * @param input see {@link DutyCycleInput} (SI: m³/s, m, W, kg/m³, h)
@@ -198,27 +195,27 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
-      if (hp === null) return none("beyond-curve", `${m3h(q)} is outside the pump's curve (${m3h(curve.flowMin)}–${m3h(curve.flowMax)}) at fixed speed`);
-      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${m3h(q)} the pump gives ${m(hp)}, below the system's ${m(hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+      if (hp === null) return none("beyond-curve", `${qt("flow", q)} is outside the pump's curve (${qt("flow", curve.flowMin)}–${qt("flow", curve.flowMax)}) at fixed speed`);
+      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${qt("head", hp)}, below the system's ${qt("head", hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       head = hp;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
     } else {
       const f = q / qDesign;
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
-      if (!(head > 0)) return none("beyond-curve", `the control asks for ${m(head)} at ${m3h(q)}: no pumping needed at this step`);
+      if (!(head > 0)) return none("beyond-curve", `the control asks for ${qt("head", head)} at ${qt("flow", q)}: no pumping needed at this step`);
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
         // the point on the lowest-speed curve at this flow (affinity laws).
         const q1 = q / minSpeed;
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
-        if (h1 === null) return none("below-speed-range", `${m3h(q)} needs less than the lowest speed ${(minSpeed * 100).toFixed(0)} % and lies off the curve there`, head);
+        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${(minSpeed * 100).toFixed(0)} % and lies off the curve there`, head);
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
       } else if (sol.status !== "ok" || sol.ratio === null) {
-        return none("beyond-curve", `${m3h(q)} at ${m(head)}: ${sol.message}`, head);
+        return none("beyond-curve", `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
@@ -228,7 +225,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (shaft === null || !(shaft > 0)) {
       const e = eta;
       if (e !== null && e > 0) shaft = (rho * G0 * q * head) / e;
-      else return { ...none("no-power-data", `the curve has no efficiency or power at ${m3h(q)}`, head, n) };
+      else return { ...none("no-power-data", `the curve has no efficiency or power at ${qt("flow", q)}`, head, n) };
     }
     if (eta === null) eta = (rho * G0 * q * head) / shaft;
     const x = shaft / rating;

@@ -101,9 +101,7 @@ export interface Verdict {
 }
 
 // Quantities as tokens (quantityText.ts): the reader's units are chosen where the text is shown.
-const m3h = (q: number) => qt("flow", q);
-const mm = (d: number) => `Ø${qt("diameter", d)}`;
-const kw = (p: number) => qt("power", p);
+const diameterText = (d: number) => `Ø${qt("diameter", d)}`;
 const pc = (x: number, digits = 1) => `${(x * 100).toFixed(digits)} %`;
 
 function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {
@@ -128,9 +126,9 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
     requirePositive("catalogue.diameter", d);
     const lo = c.minDiameter ?? null, hi = c.maxDiameter ?? null;
     if (lo !== null && d < requirePositive("catalogue.minDiameter", lo) * (1 - eps))
-      out.push(`impeller ${mm(d)} is below the smallest the model publishes (${mm(lo)})`);
+      out.push(`impeller ${diameterText(d)} is below the smallest the model publishes (${diameterText(lo)})`);
     if (hi !== null && d > requirePositive("catalogue.maxDiameter", hi) * (1 + eps))
-      out.push(`impeller ${mm(d)} is above the largest the model publishes (${mm(hi)})`);
+      out.push(`impeller ${diameterText(d)} is above the largest the model publishes (${diameterText(hi)})`);
   }
   const range = c.speedRange ?? DEFAULT_SPEED_RANGE;
   const rMin = requirePositive("catalogue.speedRange.min", range.min), rMax = requirePositive("catalogue.speedRange.max", range.max);
@@ -192,27 +190,27 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const best = input.edges.reduce((a, b) => ((b.flow as number) > (a.flow as number) ? b : a));
   const q = worst.flow as number;
   const lo = qd * (1 - tol.minus), hi = qd * (1 + tol.plus);
-  const band = input.edges.length > 1 ? ` (${m3h(best.flow as number)} at ${best.name})` : "";
+  const band = input.edges.length > 1 ? ` (${qt("flow", best.flow as number)} at ${best.name})` : "";
   const ratio = q / qd;
   const tolText = `−${pc(tol.minus, 0)}/+${pc(tol.plus, 0)}`;
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
-      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${tol.minus}) = ${m3h(lo)}`,
-      reasons: [`Delivers ${m3h(q)} at ${worst.name} against a duty of ${m3h(qd)}: ${pc(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
+      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${tol.minus}) = ${qt("flow", lo)}`,
+      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${pc(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
   }
   if (q > hi * (1 + eps)) {
-    const reasons = [`Delivers ${m3h(q)} at ${worst.name}, its least flow in the band, against a duty of ${m3h(qd)}: ${pc(ratio)} of the duty, above the tolerance ${tolText}.`];
+    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${pc(ratio)} of the duty, above the tolerance ${tolText}.`];
     const now = input.powerNow ?? null;
     for (const s of input.savings ?? []) {
       if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
-      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${kw(s.power)} shaft instead of ${kw(now)} now, ${s.power < now ? `saving ${kw(now - s.power)} (${pc((now - s.power) / now, 0)})` : "no saving"}.`);
+      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${pc((now - s.power) / now, 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
-      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${tol.plus}) = ${m3h(hi)}`, reasons };
+      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${tol.plus}) = ${qt("flow", hi)}`, reasons };
   }
   return { status: "meets", edge: worst.name,
-    rule: `meets: operating flow at the demanding edge within ${m3h(lo)}–${m3h(hi)} (duty ${m3h(qd)}, tolerance ${tolText})`,
-    reasons: [`Delivers ${m3h(q)} at ${worst.name}, ${pc(ratio)} of the duty ${m3h(qd)}${band}.`] };
+    rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText})`,
+    reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${pc(ratio)} of the duty ${qt("flow", qd)}${band}.`] };
 }
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
