@@ -32,6 +32,15 @@ export function fmtNum(x: number | null | undefined, digits?: number): string {
 }
 
 /**
+ * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %"; "—" when missing.
+ * @param x the fraction (dimensionless)
+ * @param digits decimals (count)
+ */
+export function fmtPct(x: number | null | undefined, digits = 1): string {
+  return x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`;
+}
+
+/**
  * An SI value as text in the unit chosen for its quantity, e.g. `"42.0 m³/h"`; "—" for a missing or non-finite value.
  * @param units unit id per quantity (unitless ids)
  * @param q physical quantity (unitless id)

@@ -4,17 +4,15 @@
  */
 import { EngineInputError, requirePositive, requireNonNegative } from "./errors.ts";
 import type { Candidate } from "./search.ts";
-import { qt } from "./quantityText.ts";
-
-const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+import { fmtPct, qt } from "./quantityText.ts";
 
 /** What a row is, in words (how it meets the duty and its figures). */
 function describe(c: Candidate, reqMargin: number): string {
   const parts: string[] = [];
   parts.push(c.method === "direct" ? `reaches the duty point as published (${qt("head", c.headAtDuty)} at duty flow)`
-    : c.method === "trim" ? `reaches the duty point trimmed to ${pct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
-    : `reaches the duty point at ${pct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
-  parts.push(c.efficiency !== null ? `${pct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
+    : c.method === "trim" ? `reaches the duty point trimmed to ${fmtPct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
+    : `reaches the duty point at ${fmtPct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
+  parts.push(c.efficiency !== null ? `${fmtPct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
   if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
   if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
   if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);

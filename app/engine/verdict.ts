@@ -20,7 +20,7 @@
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
-import { qt } from "./quantityText.ts";
+import { fmtPct, qt } from "./quantityText.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
 
@@ -102,7 +102,6 @@ export interface Verdict {
 
 // Quantities as tokens (quantityText.ts): the reader's units are chosen where the text is shown.
 const diameterText = (d: number) => `Ø${qt("diameter", d)}`;
-const pc = (x: number, digits = 1) => `${(x * 100).toFixed(digits)} %`;
 
 function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {
   if (t === undefined) return DEFAULT_FLOW_TOLERANCE;
@@ -137,14 +136,14 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
   let what = "";
   if (c.speed != null && c.ratedSpeed != null) {
     frac = requirePositive("catalogue.speed", c.speed) / requirePositive("catalogue.ratedSpeed", c.ratedSpeed);
-    what = `${Math.round(c.speed)} rpm is ${pc(frac)} of the rated ${Math.round(c.ratedSpeed)} rpm`;
+    what = `${Math.round(c.speed)} rpm is ${fmtPct(frac)} of the rated ${Math.round(c.ratedSpeed)} rpm`;
   } else if (c.speedRatio != null) {
     frac = requirePositive("catalogue.speedRatio", c.speedRatio);
-    what = `speed ${pc(frac)} of the curve's speed`;
+    what = `speed ${fmtPct(frac)} of the curve's speed`;
   }
   if (frac !== null) {
-    if (frac < rMin * (1 - eps)) out.push(`${what}, below the allowed ${pc(rMin, 0)}`);
-    else if (frac > rMax * (1 + eps)) out.push(`${what}, above the allowed ${pc(rMax, 0)}`);
+    if (frac < rMin * (1 - eps)) out.push(`${what}, below the allowed ${fmtPct(rMin, 0)}`);
+    else if (frac > rMax * (1 + eps)) out.push(`${what}, above the allowed ${fmtPct(rMax, 0)}`);
   }
   return out;
 }
@@ -173,7 +172,7 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const cat = catalogueReasons(input.catalogue);
   if (cat.length) {
     return { status: "outside-catalogue", edge: null,
-      rule: `outside-catalogue: impeller within the model's published diameters and speed within ${pc((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${pc((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
+      rule: `outside-catalogue: impeller within the model's published diameters and speed within ${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
       reasons: cat.map((r) => `The ${r}: no published curve backs this pump.`) };
   }
 
@@ -192,25 +191,25 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const lo = qd * (1 - tol.minus), hi = qd * (1 + tol.plus);
   const band = input.edges.length > 1 ? ` (${qt("flow", best.flow as number)} at ${best.name})` : "";
   const ratio = q / qd;
-  const tolText = `−${pc(tol.minus, 0)}/+${pc(tol.plus, 0)}`;
+  const tolText = `−${fmtPct(tol.minus, 0)}/+${fmtPct(tol.plus, 0)}`;
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
       rule: `short: operating flow at the demanding edge below duty flow × (1 − ${tol.minus}) = ${qt("flow", lo)}`,
-      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${pc(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
+      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${fmtPct(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
   }
   if (q > hi * (1 + eps)) {
-    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${pc(ratio)} of the duty, above the tolerance ${tolText}.`];
+    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${fmtPct(ratio)} of the duty, above the tolerance ${tolText}.`];
     const now = input.powerNow ?? null;
     for (const s of input.savings ?? []) {
       if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
-      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${pc((now - s.power) / now, 0)})` : "no saving"}.`);
+      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPct((now - s.power) / now, 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
       rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${tol.plus}) = ${qt("flow", hi)}`, reasons };
   }
   return { status: "meets", edge: worst.name,
     rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText})`,
-    reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${pc(ratio)} of the duty ${qt("flow", qd)}${band}.`] };
+    reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${fmtPct(ratio)} of the duty ${qt("flow", qd)}${band}.`] };
 }
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);

@@ -3,11 +3,8 @@
  * locale, times in UTC, so a page hydrates without a difference).
  */
 
-/** A number for reading: fixed decimals per magnitude (the engine's, so quantity tokens read the same). */
-export { fmtNum } from "~/engine/quantityText";
-
-/** A fraction as a percentage, e.g. 0.723 → "72.3 %". */
-export const fmtPct = (x: number | null | undefined, digits = 1) => (x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`);
+/** A number for reading (fixed decimals per magnitude) and a fraction as a percentage: the engine's, so its messages read the same. */
+export { fmtNum, fmtPct } from "~/engine/quantityText";
 
 const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 /** A whole number with thousands separators, e.g. 12345 → "12,345". */
