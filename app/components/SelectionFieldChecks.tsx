@@ -2,6 +2,7 @@
 // frozen selection; checks come later). Each links to its own page at /field/checks/:id.
 import type { Verdict } from "~/lib/fieldchecks";
 import { VerdictBadge } from "./fieldcheck";
+import { ListTable } from "./ListTable";
 import { fmtFlow, fmtHead, type UnitChoice } from "./units";
 import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
@@ -17,8 +18,6 @@ export type SelectionCheckRow = {
   head: number;
   flowSource: string;
   verdict: Verdict;
-  verdictText: string;
-  grade: string;
   rule: string;
 };
 
@@ -33,46 +32,34 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
           No field check recorded yet. <a href={`/field/selections/${selectionId}`}>Record one</a> when the pump runs on site.
         </p>
       ) : (
-        <table className="mt-2 w-full" aria-label="Field checks of this selection">
-          <thead className="text-left text-slate-600">
-            <tr>
-              <th className="py-1">Date</th>
-              <th>Recorded by</th>
-              <th>Delivered</th>
-              <th>Verdict</th>
-              <th>Rule</th>
-              <th />
+        <ListTable head={["Date", "Recorded by", "Delivered", "Verdict", "Rule", ""]} label="Field checks of this selection">
+          {checks.map((c) => (
+            <tr key={c.id} className={`border-t border-slate-100 align-top ${c.superseded ? "text-slate-500" : ""}`}>
+              <td className="py-1">
+                {fmtDateTime(c.createdAt)}
+                {c.version > 1 ? <span className="text-xs"> · version {c.version}</span> : null}
+                {c.superseded ? <span className="text-xs"> · amended since</span> : null}
+              </td>
+              <td>
+                {c.byName || "a former member"}
+                <div className="text-xs text-slate-500">{c.byWorkspace}</div>
+              </td>
+              <td>
+                {c.flow !== null ? fmtFlow(unitSystem, c.flow) : "flow not measured"} at {fmtHead(unitSystem, c.head)}
+                {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
+              </td>
+              <td>
+                <VerdictBadge verdict={c.verdict} />
+              </td>
+              <td className="max-w-xs text-xs">{c.rule}</td>
+              <td>
+                <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.createdAt)}`}>
+                  Open
+                </a>
+              </td>
             </tr>
-          </thead>
-          <tbody>
-            {checks.map((c) => (
-              <tr key={c.id} className={`border-t border-slate-100 align-top ${c.superseded ? "text-slate-500" : ""}`}>
-                <td className="py-1">
-                  {fmtDateTime(c.createdAt)}
-                  {c.version > 1 ? <span className="text-xs"> · version {c.version}</span> : null}
-                  {c.superseded ? <span className="text-xs"> · amended since</span> : null}
-                </td>
-                <td>
-                  {c.byName || "a former member"}
-                  <div className="text-xs text-slate-500">{c.byWorkspace}</div>
-                </td>
-                <td>
-                  {c.flow !== null ? fmtFlow(unitSystem, c.flow) : "flow not measured"} at {fmtHead(unitSystem, c.head)}
-                  {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
-                </td>
-                <td>
-                  <VerdictBadge verdict={c.verdict} />
-                </td>
-                <td className="max-w-xs text-xs">{c.rule}</td>
-                <td>
-                  <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.createdAt)}`}>
-                    Open
-                  </a>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </ListTable>
       )}
     </section>
   );

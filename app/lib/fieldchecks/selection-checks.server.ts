@@ -3,7 +3,6 @@
 // selection's own workspace (contractors of a shared project see them on the field pages instead).
 import { data } from "react-router";
 import type { Viewer } from "../libraries";
-import { VERDICT_TEXT } from "./form";
 import { checkHistory } from "./records.server";
 
 const pct = (x: number) => (x * 100).toFixed(0);
@@ -24,8 +23,6 @@ export async function checksOfSelection(viewer: Viewer, selectionId: number) {
       head: c.result.delivered.head,
       flowSource: c.result.engine.flowSource,
       verdict: c.verdict,
-      verdictText: VERDICT_TEXT[c.verdict],
-      grade: g.id,
       rule: `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} % (${g.source})`,
     };
   });
