@@ -25,7 +25,7 @@ import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, withRevisio
 import { candidateLabel } from "./labels";
 
 export const MAX_CANDIDATES = 6;
-export const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
+const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
 
 /** The row of a workspace-owned table (projects, selections) with this id in the viewer's workspace, else a 404 naming `what`. */
 export async function ownRow<T extends typeof projects | typeof selections>(viewer: Viewer, table: T, id: number, what: string): Promise<T["$inferSelect"]> {

@@ -10,8 +10,8 @@ import { workspaces } from "@db/schema";
 import { prepareSearchIndex, searchDuty } from "~/engine";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet } from "../libraries";
 import { getSystem } from "./projects.server";
-import { clearSearchCaches, preparedSearch, searchForSystem, searchOptionsFor, toEngineSet, type SearchFilters } from "./search.server";
-import { curveSetAt, keptRevisions, readRevisionCurves } from "./revision-curves.server";
+import { clearSearchCaches, preparedSearch, searchForSystem, searchOptionsFor, type SearchFilters } from "./search.server";
+import { curveSetAt, keptRevisions, readRevisionCurves, toEngineSet } from "./revision-curves.server";
 import { evaluateSystem } from "./hydraulics";
 import { importCsvText, searchFixture, viewerOfUser } from "./test-kit";
 

@@ -15,7 +15,6 @@ import { catalogueOf, getSystem } from "./projects.server";
 import { WeightedLru } from "./lru";
 import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
 
-export { toEngineSet } from "./revision-curves.server";
 
 export type SearchFilters = {
   type?: string;

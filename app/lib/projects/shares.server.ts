@@ -1,7 +1,7 @@
 // Project sharing with another workspace (the contractor): the owner lists, adds and removes
 // shares; a share opens the project's selections for field checks to the other workspace.
 import { and, eq, or } from "drizzle-orm";
-import { db } from "@db/client.server";
+import { affectedRows, db } from "@db/client.server";
 import { projectShares, workspaces } from "@db/schema";
 import type { Viewer } from "../libraries";
 import { getProject } from "./projects.server";
@@ -36,5 +36,5 @@ export async function shareProject(viewer: Viewer, projectId: number, nameOrSlug
 export async function unshareProject(viewer: Viewer, projectId: number, shareId: number): Promise<boolean> {
   const p = await getProject(viewer, projectId);
   const r = await db().delete(projectShares).where(and(eq(projectShares.id, shareId), eq(projectShares.projectId, p.id)));
-  return Number((r as unknown as [{ affectedRows?: number }])?.[0]?.affectedRows ?? 0) === 1;
+  return affectedRows(r) === 1;
 }
