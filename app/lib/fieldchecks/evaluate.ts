@@ -215,11 +215,9 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
 
 /** The sentence with the delivered duty point, quantities as tokens (rendered in the reader's units), for the e-mail. */
 export function deliveredSentence(r: CheckResult): string {
-  const m3h = (q: number) => qt("flow", q);
-  const m = (h: number) => qt("head", h);
   const q = r.delivered.flow;
   const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
-  const first = q !== null ? `Delivered ${m3h(q)} (${src}) at ${m(r.delivered.head)}` : `Measured head ${m(r.delivered.head)}; flow could not be inferred`;
-  const duty = r.duty ? ` (design duty ${m3h(r.duty.flow)} at ${m(r.duty.head)})` : "";
+  const first = q !== null ? `Delivered ${qt("flow", q)} (${src}) at ${qt("head", r.delivered.head)}` : `Measured head ${qt("head", r.delivered.head)}; flow could not be inferred`;
+  const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
   return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.`;
 }

@@ -50,19 +50,17 @@ export const GOVERNING_CASE: SystemCase = { level: "max", roughness: "aged" };
 export const governingName = (mode: "open" | "closed-loop") => (mode === "open" ? "most lift, aged pipe" : "aged pipe");
 
 // Quantities as tokens: rendered in the reader's units where the text is shown.
-const m3h = (q: number) => qt("flow", q);
-const m = (h: number) => qt("head", h);
 
 /** Why a solve found no operating point, in words with the numbers. */
 export function noPointReason(op: OperatingPointResult): string {
   const f = op.atFirstPoint, l = op.atLastPoint;
   if (op.status === "no-intersection-shutoff-below-static") {
     return f.flow === 0
-      ? `shut-off head ${m(f.pumpHead)} is below the system's ${m(f.systemHead)} at zero flow: the pump cannot open its check valve`
-      : `the pump gives ${m(f.pumpHead)} at its first published point (${m3h(f.flow)}), below the system's ${m(f.systemHead)} there, and the curves never meet`;
+      ? `shut-off head ${qt("head", f.pumpHead)} is below the system's ${qt("head", f.systemHead)} at zero flow: the pump cannot open its check valve`
+      : `the pump gives ${qt("head", f.pumpHead)} at its first published point (${qt("flow", f.flow)}), below the system's ${qt("head", f.systemHead)} there, and the curves never meet`;
   }
   if (op.status === "beyond-curve-end") {
-    return `the curve ends at ${m3h(l.flow)} still giving ${m(l.pumpHead)} against the system's ${m(l.systemHead)}: the pump would run past its published curve`;
+    return `the curve ends at ${qt("flow", l.flow)} still giving ${qt("head", l.pumpHead)} against the system's ${qt("head", l.systemHead)}: the pump would run past its published curve`;
   }
   return op.message;
 }
@@ -132,7 +130,7 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }): S
   const per = ctx.arrangement === "parallel" ? { flow: duty.flow / ctx.n, head: duty.head } : ctx.arrangement === "series" ? { flow: duty.flow, head: duty.head / ctx.n } : duty;
   const at = (c: PumpCurve) => (per.flow >= c.flowMin && per.flow <= c.flowMax ? shaftPowerAt(c, per.flow, rho) : null);
   const times = (p: number | null) => (p == null ? null : p * k);
-  const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${m3h(duty.flow)} flows` }];
+  const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${qt("flow", duty.flow)} flows` }];
   const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
   if (sp.status === "ok" && sp.ratio) {
     out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${(sp.ratio * 100).toFixed(1)} % speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}` });
