@@ -7,12 +7,11 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { crossOf, crossSentences, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { crossOf, crossSentences, gradeRule, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { fmtDateTime } from "~/lib/shared/format";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
@@ -212,7 +211,7 @@ export default function FieldCheckRecord() {
           </dd>
           <dt className="text-slate-600">Grade</dt>
           <dd>
-            {r.grade.id}: flow −{(r.grade.flow[0] * 100).toFixed(0)}/+{(r.grade.flow[1] * 100).toFixed(0)} %, head −{(r.grade.head[0] * 100).toFixed(0)}/+{(r.grade.head[1] * 100).toFixed(0)} % ({r.grade.source})
+            {gradeRule(r.grade)}
           </dd>
           <dt className="text-slate-600">Notes</dt>
           <dd className="whitespace-pre-wrap">{d.check.notes || "—"}</dd>

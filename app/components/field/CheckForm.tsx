@@ -11,6 +11,7 @@ import {
   evaluateCheck,
   FLOW_UNITS,
   gradeById,
+  gradeRule,
   MAX_PHOTOS,
   parseCheckFields,
   POWER_UNITS,
@@ -226,7 +227,7 @@ export function CheckForm(props: Props) {
           <select id={inputId("gradeId")} name="gradeId" defaultValue={value("gradeId") || DEFAULT_GRADE} className={BIG_INPUT}>
             {TOLERANCE_GRADES.map((g) => (
               <option key={g.id} value={g.id}>
-                {g.id}: flow −{(g.flow[0] * 100).toFixed(0)}/+{(g.flow[1] * 100).toFixed(0)} %, head −{(g.head[0] * 100).toFixed(0)}/+{(g.head[1] * 100).toFixed(0)} %
+                {gradeRule(g, { withSource: false })}
               </option>
             ))}
           </select>

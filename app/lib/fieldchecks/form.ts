@@ -1,7 +1,7 @@
 // The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
-import { fromSI, toSI, unitLabel, type Quantity } from "~/engine";
+import { fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
 import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
@@ -11,6 +11,12 @@ export const DEFAULT_GRADE = "2B";
 export const MAX_PHOTOS = 6;
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 export type Verdict = "pass" | "marginal" | "fail" | "unknown";
+
+/** A grade's rule in words, e.g. "2B: flow −8/+8 %, head −5/+5 % (ISO 9906:2012 …)"; `withSource: false` leaves the source off (the form's select). */
+export function gradeRule(g: ToleranceGrade, { withSource = true } = {}): string {
+  const pct = (x: number) => (x * 100).toFixed(0);
+  return `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} %${withSource ? ` (${g.source})` : ""}`;
+}
 
 /** Words for the verdicts, the same on the form, the record, the list, the CSV and the e-mail. */
 export const VERDICT_TEXT: Record<Verdict, string> = {

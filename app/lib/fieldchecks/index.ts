@@ -18,6 +18,7 @@ export {
   speedRpm,
   TEMPERATURE_UNITS,
   VERDICT_TEXT,
+  gradeRule,
   type CheckFields,
   type GaugeRef,
   type ParseResult,

@@ -4,14 +4,12 @@
 import { data } from "react-router";
 import type { Viewer } from "../libraries";
 import { checkHistory } from "./records.server";
-
-const pct = (x: number) => (x * 100).toFixed(0);
+import { gradeRule } from "./form";
 
 export async function checksOfSelection(viewer: Viewer, selectionId: number) {
   const history = await checkHistory(viewer, selectionId);
   if (!history.selection.own) throw data("No such selection in this workspace.", { status: 404 });
   return history.checks.map((c) => {
-    const g = c.result.grade;
     return {
       id: c.id,
       version: c.version,
@@ -23,7 +21,7 @@ export async function checksOfSelection(viewer: Viewer, selectionId: number) {
       head: c.result.delivered.head,
       flowSource: c.result.engine.flowSource,
       verdict: c.verdict,
-      rule: `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} % (${g.source})`,
+      rule: gradeRule(c.result.grade),
     };
   });
 }
