@@ -25,7 +25,7 @@ import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
-import { fmtDate } from "~/lib/shared/format";
+import { fmtDate, fmtMoney } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Plan and billing · Dutymark" }];
 
@@ -105,8 +105,6 @@ export async function action({ request }: Route.ActionArgs) {
     return invalid({ _form: billingErrorMessage(e) }, 502);
   }
 }
-
-const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
 
 /** The paid plan's price as Stripe states it, or where to find it when it could not be read. */
 function PaidPrice({ price }: { price: string | null }) {

@@ -4,6 +4,7 @@
 // says the price is shown at checkout. A good answer is kept 10 minutes per process and configuration.
 import Stripe from "stripe";
 import { BillingNotConfigured, stripe, stripeConfig } from "./billing.server";
+import { fmtMoney } from "../shared/format";
 
 export type PlanPrice = { amountCents: number; currency: string; interval: string; intervalCount: number; text: string };
 
@@ -12,7 +13,7 @@ let kept: { key: string; at: number; price: PlanPrice } | null = null;
 
 /** "49.00 EUR per month", "120.00 EUR every 3 months", "490.00 EUR once" (amounts in the currency's minor unit, 2 decimals). */
 export function priceText(amountCents: number, currency: string, interval: string | null, intervalCount = 1): string {
-  const amount = `${(amountCents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+  const amount = fmtMoney(amountCents, currency);
   if (!interval) return `${amount} once`;
   return intervalCount === 1 ? `${amount} per ${interval}` : `${amount} every ${intervalCount} ${interval}s`;
 }

@@ -6,6 +6,9 @@
 /** A number for reading (fixed decimals per magnitude) and a fraction as a percentage: the engine's, so its messages read the same. */
 export { fmtNum, fmtPct } from "~/engine/quantityText";
 
+/** An amount in a currency's minor unit (2 decimals), e.g. 4900, "eur" → "49.00 EUR". */
+export const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+
 const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 /** A whole number with thousands separators, e.g. 12345 → "12,345". */
 export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
