@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Form } from "react-router";
 import type { CandidateEnergy as Energy } from "~/lib/projects/energy";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/components/units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 
 type Cand = { id: number; label: string; energy?: Energy | null };

@@ -2,7 +2,7 @@
 import type { CandidateEnergy } from "~/lib/projects/energy";
 import { CandidateCycle } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
-import type { UnitChoice } from "~/components/units";
+import type { UnitChoice } from "~/lib/shared/units";
 
 export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitChoice; currency: string }) {
   const e = c.energy;

@@ -3,7 +3,7 @@
 import type { Verdict } from "~/lib/fieldchecks";
 import { VerdictBadge } from "./fieldcheck";
 import { ListTable } from "./ListTable";
-import { fmtFlow, fmtHead, type UnitChoice } from "./units";
+import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it. */

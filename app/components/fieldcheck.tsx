@@ -5,7 +5,7 @@ import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { VERDICT_TEXT, type CheckResult, type Verdict } from "~/lib/fieldchecks";
-import { fmtFlow, fmtHead, type UnitChoice } from "./units";
+import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
 export function FieldCaution() {
   return (

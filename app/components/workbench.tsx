@@ -3,7 +3,7 @@
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "./units";
+import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";

@@ -4,8 +4,7 @@ import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
 import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { toSI } from "~/engine";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, labelOf, renderUnits } from "~/components/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, fromChosen, labelOf, renderUnits } from "~/lib/shared/units";
 import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
@@ -51,7 +50,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
   const numIn = (k: "flow" | "head", q: "flow" | "head") => {
     const x = Number(qp(k).replace(",", "."));
-    return Number.isFinite(x) && x > 0 ? toSI(q, sys[q], x) : undefined;
+    return Number.isFinite(x) && x > 0 ? fromChosen(sys, q, x) : undefined;
   };
   const sort = qp("sort");
   const filters = {

@@ -8,12 +8,11 @@ import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
 import { Field, FormOutcome } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
-import { fmtFlow, fmtHead } from "~/components/units";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { PostButton } from "~/components/PostButton";
 import { useFormResult } from "~/components/useFormResult";
-import { renderDeep } from "~/lib/shared/units";
+import { renderDeep, fmtFlow, fmtHead } from "~/lib/shared/units";
 import { fmtDate } from "~/lib/shared/format";
 import { ListTable, NameCell } from "~/components/ListTable";
 

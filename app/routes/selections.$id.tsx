@@ -5,7 +5,6 @@ import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
-import { fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/components/units";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
@@ -15,7 +14,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/lib/shared/units";
 import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 

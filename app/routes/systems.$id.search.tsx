@@ -7,14 +7,12 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryId, QueryText } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
 import { can } from "~/lib/auth/permissions";
-import { toSI } from "~/engine";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/components/units";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep } from "~/lib/shared/units";
+import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
 import { pageHref } from "~/lib/projects/search-view";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
@@ -44,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? toSI("power", sys.power, maxPower) : undefined,
+    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? fromChosen(sys, "power", maxPower) : undefined,
     methods: methods.length ? methods : undefined,
     allowBeyondCatalogue: query.beyond,
   };

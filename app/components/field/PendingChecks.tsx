@@ -4,7 +4,7 @@
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
-import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "../units";
+import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { fmtDateTime } from "~/lib/shared/format";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */

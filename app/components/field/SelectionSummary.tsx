@@ -1,7 +1,7 @@
 // The head of a selection's check page (what was selected) and its list of recorded checks.
 import { VerdictBadge } from "../fieldcheck";
 import type { Verdict } from "~/lib/fieldchecks";
-import { fmtFlow, fmtHead, type UnitChoice } from "../units";
+import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 import { fmtDateTime } from "~/lib/shared/format";
 
 export type SummarySelection = {

@@ -1,13 +1,12 @@
 // How one candidate is run: as published, by speed or trim (ratio or solved for the duty),
 // single/parallel/series with standby, motor rating, service factor and efficiency class.
 import { Form } from "react-router";
-import { fromSI, IE_CLASSES, unitLabel } from "~/engine";
-import type { UnitChoice } from "~/lib/shared/units";
+import { IE_CLASSES } from "~/engine";
+import { labelOf, toChosen, type UnitChoice } from "~/lib/shared/units";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 
 export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; error?: string }) {
   const a = c.adjustment;
-  const powerUnit = unitSystem.power;
   return (
     <Form method="post" className="space-y-1 text-xs">
       <input type="hidden" name="candidateId" value={c.id} />
@@ -43,8 +42,8 @@ export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candida
       </div>
       <div className="flex gap-1">
         <label className="block">
-          motor {unitLabel("power", powerUnit)} (blank: suggested)
-          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+fromSI("power", powerUnit, a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
+          motor {labelOf(unitSystem, "power")} (blank: suggested)
+          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+toChosen(unitSystem, "power", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
         </label>
         <label className="block">
           service factor

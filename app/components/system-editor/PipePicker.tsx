@@ -3,7 +3,7 @@
 // diameter of the chosen size shown at once. Without JavaScript the two selects still post.
 import { useMemo, useState } from "react";
 import { PIPE_TABLES, type PipeTable } from "~/engine";
-import { fmtQ, type UnitChoice } from "~/components/units";
+import { fmtQ, type UnitChoice } from "~/lib/shared/units";
 
 /** Tables grouped by standard, in catalogue order. */
 export function groupByStandard(tables: readonly PipeTable[]): { standard: string; tables: PipeTable[] }[] {

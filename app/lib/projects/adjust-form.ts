@@ -2,9 +2,8 @@
 // the ratio in percent (blank: solve for the duty), the motor rating in the user's power unit
 // (blank or 0: suggested). Pure: the route validates with AdjustmentSchema through this.
 import * as v from "valibot";
-import { toSI } from "~/engine";
 import { AdjustmentSchema, type Adjustment } from "./hydraulics";
-import type { UnitChoice } from "../shared/units";
+import { fromChosen, type UnitChoice } from "../shared/units";
 
 const num = (x: FormDataEntryValue | null) => Number(String(x ?? "").trim().replace(",", "."));
 
@@ -17,7 +16,7 @@ export function readAdjustForm(form: FormData, sys: UnitChoice): { adjustment: A
     arrangement: form.get("arrangement"),
     dutyPumps: Number(form.get("dutyPumps") || 1),
     standbyPumps: Number(form.get("standbyPumps") || 0),
-    motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? toSI("power", sys.power, motorRaw) : 0,
+    motorRating: Number.isFinite(motorRaw) && motorRaw > 0 ? fromChosen(sys, "power", motorRaw) : 0,
     serviceFactor: num(form.get("serviceFactor") ?? "1") || 1,
     ieClass: form.get("ieClass") ?? undefined,
   });
