@@ -219,6 +219,9 @@ describe("Starter (free): shared libraries listed, never their curves", () => {
     const json = await call(selectionJson.loader as never, asEngineer(`/selections/${c.selectionId}/export.json`, { params: { id: String(c.selectionId) } }));
     expect(json.status).toBe(200);
     expect((json.body as { pump: { points: unknown } }).pump.points).toEqual(c.frozenPoints);
+    // The export writes every quantity out in SI, the top-level verdict's rule and reasons included (no ⟦…⟧ token left).
+    expect((json.body as { verdict: { rule: string } | null }).verdict?.rule).toBeTruthy();
+    expect(JSON.stringify(json.body)).not.toContain("⟦");
   });
 });
 
