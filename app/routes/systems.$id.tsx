@@ -60,7 +60,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   switch (intent) {
     case "save": {
       const { input, name, errors } = readSystemForm(form, sys);
-      if (!input) return { errors: renderDeep(errors, sys), notice: null };
+      if (!input) return { errors, notice: null };
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
       return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved.", saved: true };
@@ -126,7 +126,7 @@ export default function SystemPage() {
   };
   const view = (draft && live) || d.view;
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
-  const errors = { ...(a?.errors ?? {}), ...renderDeep(liveErrors, d.unitSystem) };
+  const errors = { ...(a?.errors ?? {}), ...liveErrors };
   const f = systemFormValues(d.input, d.unitSystem);
   const ro = !d.canWrite;
   return (

@@ -2,7 +2,7 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
-import { labelOf, unitOf, type UnitChoice } from "../shared/units";
+import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
@@ -54,7 +54,7 @@ export type FormLike = { get(name: string): FormDataEntryValue | null };
 
 /**
  * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
- * ranges. Returns the errors keyed by field name (for messages next to the fields).
+ * ranges. Returns the errors keyed by field name (for messages next to the fields), in the user's units.
  */
 export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInput | null; name: string; errors: FormErrors } {
   const errors: FormErrors = {};
@@ -151,7 +151,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
       errors[fieldFor(path)] ??= issue.message;
     }
   }
-  return { input: r.success && Object.keys(errors).length === 0 ? r.output : null, name, errors };
+  return { input: r.success && Object.keys(errors).length === 0 ? r.output : null, name, errors: renderDeep(errors, sys) };
 }
 
 /** Maps a schema issue path to the form field that holds it. */
