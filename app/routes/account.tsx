@@ -1,16 +1,17 @@
 import * as v from "valibot";
-import { Form, useActionData, useLoaderData, useSearchParams } from "react-router";
+import { Form, useLoaderData, useSearchParams } from "react-router";
 import type { Route } from "./+types/account";
 import { deviceId, listSessions, revokeDevice } from "~/lib/auth/session.server";
 import { sendVerification, updateProfile } from "~/lib/auth/accounts.server";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/auth/api-tokens.server";
 import { requireMember } from "~/lib/auth/guards.server";
 import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
-import { Field, FormError, Notice } from "~/components/forms";
+import { Field, FormOutcome, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PostButton } from "~/components/PostButton";
 import { UnitsFieldset } from "~/components/UnitsFieldset";
+import { useFormResult } from "~/components/useFormResult";
 import { PRESET_IDS, SETTABLE } from "~/lib/shared/units";
 import { UNITS, type Quantity } from "~/engine";
 import { fmtDateTime } from "~/lib/shared/format";
@@ -81,15 +82,13 @@ const fmt = (iso: string | null) => (iso ? `${fmtDateTime(iso)} UTC` : "never");
 
 export default function Account() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: Record<string, string>; notice?: string; token?: string } | undefined;
+  const { errors, notice, data: a } = useFormResult<{ token?: string }>();
   const [params] = useSearchParams();
-  const errors = a?.errors ?? {};
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold text-brand-900">Your account</h1>
       {params.get("welcome") ? <Notice>Welcome to Dutymark. We sent a link to {d.user.email} to confirm the address.</Notice> : null}
-      {a?.notice ? <Notice>{a.notice}</Notice> : null}
-      <FormError error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form} />
       {a?.token ? (
         <div className="panel border-duty">
           <p className="text-sm font-semibold">New API token (shown once):</p>
@@ -109,11 +108,7 @@ export default function Account() {
           )}
         </p>
         {!d.user.emailVerified ? (
-          <Form method="post">
-            <button className="btn-quiet" name="intent" value="resend">
-              Send the confirmation link again
-            </button>
-          </Form>
+          <PostButton intent="resend">Send the confirmation link again</PostButton>
         ) : null}
         <Form method="post" className="grid max-w-lg gap-3">
           <input type="hidden" name="intent" value="profile" />

@@ -11,7 +11,7 @@ import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
 import { pageHref } from "~/lib/projects/search-view";
 
@@ -128,10 +128,10 @@ export default function Search({ actionData }: Route.ComponentProps) {
   const sys = d.unitSystem;
   return (
     <div className="space-y-4">
-      <div>
-        <Crumbs trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name], [`/systems/${d.id}`, d.name]]} />
-        <h1 className="text-2xl font-bold text-brand-900">Pumps for {d.duty ? `${fmtFlow(sys, d.duty.flow)} at ${fmtHead(sys, d.duty.head)}` : "this system"}</h1>
-      </div>
+      <PageHead
+        trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name], [`/systems/${d.id}`, d.name]]}
+        title={`Pumps for ${d.duty ? `${fmtFlow(sys, d.duty.flow)} at ${fmtHead(sys, d.duty.head)}` : "this system"}`}
+      />
       <FormError error={(actionData as { error?: string } | undefined)?.error} />
       {d.message ? <p className="caution">{d.message}</p> : null}
       <Form method="get" className="panel flex flex-wrap items-end gap-3 text-sm">

@@ -24,7 +24,7 @@ import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { Crumbs } from "~/components/Crumbs";
+import { PageHead } from "~/components/PageHead";
 import { PostButton } from "~/components/PostButton";
 import { renderDeep } from "~/lib/shared/units";
 
@@ -132,10 +132,7 @@ export default function SystemPage() {
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-2">
-        <div>
-          <Crumbs trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name]]} />
-          <h1 className="text-2xl font-bold text-brand-900">{d.name}</h1>
-        </div>
+        <PageHead trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name]]} title={d.name} />
         <div className="no-print flex gap-2">
           <a className="btn" href={`/systems/${d.id}/search`}>
             Find pumps for this duty
