@@ -1,7 +1,8 @@
 import { UNITS, type Quantity } from "~/engine";
-import { PRESETS, QUANTITY_NAMES, SETTABLE, type PresetId } from "~/lib/shared/units";
+import { labelOf, PRESET_IDS, PRESETS, QUANTITY_NAMES, SETTABLE, type PresetId } from "~/lib/shared/units";
+import { Options } from "./forms";
 
-const presetText = (p: PresetId) => SETTABLE.slice(0, 4).map((q) => UNITS[q].find((d) => d.id === PRESETS[p][q])?.label).join(", ");
+const presetText = (p: PresetId) => SETTABLE.slice(0, 4).map((q) => labelOf(PRESETS[p], q)).join(", ");
 
 /** The account page's units: a preset, then one select per quantity ("as the preset" or a unit of it). Plain form fields, no script. */
 export function UnitsFieldset({ preset, overrides, errors }: { preset: PresetId; overrides: Partial<Record<Quantity, string>>; errors: Record<string, string> }) {
@@ -13,8 +14,7 @@ export function UnitsFieldset({ preset, overrides, errors }: { preset: PresetId;
           Preset
         </label>
         <select id="f-units" name="unitSystem" defaultValue={preset} className="field">
-          <option value="SI">SI — {presetText("SI")}</option>
-          <option value="US">US — {presetText("US")}</option>
+          <Options values={PRESET_IDS} label={(p) => `${p} — ${presetText(p)}`} />
         </select>
       </div>
       <p className="text-xs text-slate-600">Each quantity follows the preset unless you pick its unit here; pages, reports, warnings and e-mails use these units.</p>

@@ -20,7 +20,7 @@ import { HeadMarks, PanelMarks, PorShading } from "./Marks.tsx";
 import { buildChartModel } from "./model.ts";
 import { EmptyMessage, FlowAxisTitle, PanelFrame } from "./PanelFrame.tsx";
 import { readoutRows, readoutText } from "./readout.ts";
-import { NpshaCurve, NpshaLabel, PumpHeadCurves, PumpPanelCurves, SystemBand, SystemCurve, type LayerProps } from "./Series.tsx";
+import { NpshaCurve, NpshaLabel, PumpCurves, SystemBand, SystemCurve, type LayerProps } from "./Series.tsx";
 import { ChartTables } from "./TableView.tsx";
 import type { DutyChartProps } from "./types.ts";
 import { useChartCursor } from "./useChartCursor.ts";
@@ -145,8 +145,8 @@ export function DutyChart(props: DutyChartProps) {
 }
 
 /** What the head panel and every other panel draw inside their clip, bottom layer first. */
-const HEAD_LAYERS = [SystemBand, PorShading, SystemCurve, PumpHeadCurves];
-const PANEL_LAYERS = [NpshaCurve, PumpPanelCurves, PanelMarks, NpshaLabel];
+const HEAD_LAYERS = [SystemBand, PorShading, SystemCurve, PumpCurves];
+const PANEL_LAYERS = [NpshaCurve, PumpCurves, PanelMarks, NpshaLabel];
 
 function PanelContent(props: LayerProps) {
   return (

@@ -39,11 +39,6 @@ export function SystemCurve({ model, panel }: Pick<LayerProps, "model" | "panel"
   return <path data-series="system" d={linePath(sys.design, model.x, panel.y)} fill="none" stroke={C.system} strokeWidth={2} />;
 }
 
-/** Each shown pump's head curve. */
-export function PumpHeadCurves(props: LayerProps) {
-  return <PumpCurves {...props} kind="head" width={2.25} />;
-}
-
 /** NPSHa on the NPSH panel (dashed, system colour). */
 export function NpshaCurve({ model, panel }: Pick<LayerProps, "model" | "panel">) {
   if (panel.kind !== "npsh" || model.npsha.length <= 1) return null;
@@ -59,13 +54,9 @@ export function NpshaCurve({ model, panel }: Pick<LayerProps, "model" | "panel">
   );
 }
 
-/** Each shown pump's curve on an efficiency, power or NPSH panel (pumps without data skipped). */
-export function PumpPanelCurves(props: LayerProps) {
-  return <PumpCurves {...props} kind={props.panel.kind} width={2} />;
-}
-
-/** One path per pump for one kind of curve (head on the head panel, else the panel's own). */
-function PumpCurves({ model, panel, pumps, opacityOf, kind, width }: LayerProps & { kind: PanelLayout["kind"]; width: number }) {
+/** Each shown pump's curve for the panel it is drawn on: head (a wider line) on the head panel, else the panel's own efficiency, power or NPSH (pumps without data skipped). */
+export function PumpCurves({ model, panel, pumps, opacityOf }: LayerProps) {
+  const kind = panel.kind;
   return (
     <>
       {pumps.map((p) => {
@@ -73,13 +64,13 @@ function PumpCurves({ model, panel, pumps, opacityOf, kind, width }: LayerProps 
         if (s.length === 0) return null;
         return (
           <path
-            key={`${kind === "head" ? "h" : kind}-${p.id}`}
+            key={`${kind}-${p.id}`}
             data-series={`pump-${kind}`}
             data-pump-id={p.id}
             d={linePath(s, model.x, panel.y)}
             fill="none"
             stroke={p.color}
-            strokeWidth={width}
+            strokeWidth={kind === "head" ? 2.25 : 2}
             strokeDasharray={p.adjusted ? DASH_ADJUSTED : undefined}
             strokeLinejoin="round"
             opacity={opacityOf(p.id)}

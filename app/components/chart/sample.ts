@@ -4,7 +4,7 @@
  * Numbers are made up for drawing; they describe no real pump.
  */
 import { UNIT_SYSTEMS } from "../../engine/units.ts";
-import type { DutyChartProps, Pt, PumpSeries, UnitSystemId } from "./types.ts";
+import type { DutyChartProps, Pt, PumpSeries } from "./types.ts";
 
 const RHO = 998.2; // kg/m³, water at 20 °C
 const G = 9.80665;
@@ -50,8 +50,8 @@ function pump(
 }
 
 /** Sample chart props: duty 0.1 m³/s at 30 m, system Hs = 12 m, K = 1800 s²/m⁵. */
-export function sampleProps(units: "SI" | "US" | UnitSystemId = "SI"): DutyChartProps {
-  const unitSystem = typeof units === "string" ? UNIT_SYSTEMS[units] : units;
+export function sampleProps(units: "SI" | "US" = "SI"): DutyChartProps {
+  const unitSystem = UNIT_SYSTEMS[units];
   const hs = 12;
   const ks = 1800;
   return {

@@ -8,7 +8,7 @@ import { createElement, type FunctionComponent } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { DutyChart } from "./DutyChart.tsx";
 import { buildChartModel, type ChartModelInput } from "./model.ts";
-import { NpshaCurve, PumpHeadCurves, PumpPanelCurves, SystemBand, type LayerProps } from "./Series.tsx";
+import { NpshaCurve, PumpCurves, SystemBand, type LayerProps } from "./Series.tsx";
 import type { PumpSeries } from "./types.ts";
 import { UNIT_SYSTEMS } from "../../engine/units.ts";
 const SI_UNITS = UNIT_SYSTEMS.SI;
@@ -29,7 +29,7 @@ describe("curve layers", () => {
     const m = modelOf({
       pumps: [pump("a", { head: [head[0], { flow: Number.NaN, y: 3 }, { flow: 0.1, y: Number.POSITIVE_INFINITY }, head[1]] })],
     });
-    expect(layer(PumpHeadCurves, m)).toContain('d="M56,82L637.4,202"');
+    expect(layer(PumpCurves, m)).toContain('d="M56,82L637.4,202"');
     const withNaN = pump("a", { head: [head[0], { flow: Number.NaN, y: 3 }, { flow: 0.1, y: Number.POSITIVE_INFINITY }, head[1]] });
     const html = renderToStaticMarkup(
       createElement(DutyChart, { unitSystem: SI_UNITS, title: "t", description: "d", pumps: [withNaN], defaultCursorFlow: 0.1 }),
@@ -42,20 +42,20 @@ describe("curve layers", () => {
       { flow: 0.2, y: 0.8 },
     ];
     const m = modelOf({ pumps: [pump("a", { efficiency: eff }), pump("b", { efficiency: [] })] });
-    const html = layer(PumpPanelCurves, m, "efficiency");
+    const html = layer(PumpCurves, m, "efficiency");
     expect(html.split("<path").length - 1).toBe(1);
     expect(html).toContain('data-pump-id="a"');
     expect(html).not.toContain('data-pump-id="b"');
   });
   it("a pump emphasised in the legend stays opaque, the others fade to 0.22 (the chart's opacityOf)", () => {
     const m = modelOf({ pumps: [pump("a"), pump("b")] });
-    const html = layer(PumpHeadCurves, m, "head", ((id: string) => (id === "a" ? 1 : 0.22)) as () => number);
+    const html = layer(PumpCurves, m, "head", ((id: string) => (id === "a" ? 1 : 0.22)) as () => number);
     expect(html).toMatch(/data-pump-id="a"[^>]*opacity="1"/);
     expect(html).toMatch(/data-pump-id="b"[^>]*opacity="0.22"/);
   });
   it("adjusted pumps are dashed 7 4, others solid", () => {
     const m = modelOf({ pumps: [pump("a"), pump("b", { adjusted: true })] });
-    const html = layer(PumpHeadCurves, m);
+    const html = layer(PumpCurves, m);
     expect(html).toMatch(/data-pump-id="b"[^>]*stroke-dasharray="7 4"/);
     expect(html).not.toMatch(/data-pump-id="a"[^>]*stroke-dasharray/);
   });

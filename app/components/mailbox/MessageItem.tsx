@@ -2,7 +2,7 @@
 // the HTML part in a sandboxed frame.
 import type { MailboxMessage } from "~/lib/mail/mailbox-message";
 import { Linkified } from "./Linkified";
-import { fmtUtcSeconds } from "~/lib/shared/format";
+import { fmtInt, fmtUtcSeconds } from "~/lib/shared/format";
 
 /** The HTML part in a sandbox without scripts or same-origin access; its links open a new tab. */
 function htmlForFrame(html: string): string {
@@ -27,7 +27,7 @@ export function MessageItem({ m, open }: { m: MailboxMessage; open: boolean }) {
           <dt className="label self-center">To</dt>
           <dd>{m.to.join(", ") || m.envelope.to.join(", ")}</dd>
           <dt className="label self-center">Size</dt>
-          <dd>{m.size.toLocaleString("en-US")} bytes</dd>
+          <dd>{fmtInt(m.size)} bytes</dd>
         </dl>
         {m.links.length > 0 && (
           <div>
