@@ -3,7 +3,7 @@
 import { useEffect } from "react";
 import { useRevalidator } from "react-router";
 import type { ImportView } from "~/lib/libraries/import-view";
-import { fmtDateTime, fmtInt } from "~/lib/shared/format";
+import { fmtUtc, fmtInt } from "~/lib/shared/format";
 
 export type ImportRow = Omit<ImportView, "uploadId">;
 
@@ -37,7 +37,7 @@ export function ImportList({ imports, refreshHref, highlight }: { imports: Impor
           return (
             <li key={i.id} data-testid={`import-${i.id}`} data-status={i.status} className={i.id === highlight ? "font-semibold" : ""}>
               <span>
-                Import {i.id} ({fmtDateTime(i.createdAt)} UTC): {STATUS[i.status]}
+                Import {i.id} ({fmtUtc(i.createdAt)}): {STATUS[i.status]}
                 {i.status === "done" && i.revisionNumber ? ` as revision ${i.revisionNumber}` : ""} ·{" "}
                 {i.status === "done" ? `${fmtInt(i.pointsTotal)} points` : `${fmtInt(i.pointsWritten)} of ${fmtInt(i.pointsTotal)} points written`}
                 {i.status === "running" ? " (kept only when all are written)" : ""}

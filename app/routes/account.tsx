@@ -14,7 +14,7 @@ import { UnitsFieldset } from "~/components/UnitsFieldset";
 import { useFormResult } from "~/components/useFormResult";
 import { PRESET_IDS, SETTABLE } from "~/lib/shared/units";
 import { UNITS, type Quantity } from "~/engine";
-import { fmtDateTime } from "~/lib/shared/format";
+import { fmtUtc } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Dutymark" }];
 
@@ -78,7 +78,7 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const fmt = (iso: string | null) => (iso ? `${fmtDateTime(iso)} UTC` : "never");
+const fmt = (iso: string | null) => (iso ? fmtUtc(iso) : "never");
 
 export default function Account() {
   const d = useLoaderData<typeof loader>();

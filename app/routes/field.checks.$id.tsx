@@ -12,7 +12,7 @@ import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/compo
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
-import { fmtDateTime } from "~/lib/shared/format";
+import { fmtUtc } from "~/lib/shared/format";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -66,7 +66,7 @@ export default function FieldCheckRecord() {
           Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
         </h1>
         <p className="text-sm text-slate-700">
-          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtDateTime(d.check.createdAt)} UTC by {d.recordedBy} ({d.recordedIn})
+          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtUtc(d.check.createdAt)} by {d.recordedBy} ({d.recordedIn})
         </p>
       </header>
       {d.justRecorded ? (

@@ -18,7 +18,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
-import { fmtDateTime, fmtInt } from "~/lib/shared/format";
+import { fmtUtc, fmtInt } from "~/lib/shared/format";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -254,7 +254,7 @@ export default function LibraryPage() {
                       {r.number}
                       {i === 0 ? <span className="ml-1 text-xs text-brand-700">current</span> : null}
                     </td>
-                    <td>{fmtDateTime(r.at)} UTC</td>
+                    <td>{fmtUtc(r.at)}</td>
                     <td>{fmtInt(r.curves)}</td>
                     <td>{fmtInt(r.points)}</td>
                     <td>{fmtInt(r.skipped)}</td>
@@ -286,7 +286,7 @@ export default function LibraryPage() {
                 {d.pending.map((p) => (
                   <li key={p.id}>
                     <a href={`/libraries/${d.lib.id}/uploads/${p.id}`}>{p.filename}</a> · {fmtBytes(p.sizeBytes)} · uploaded{" "}
-                    {fmtDateTime(p.createdAt)} UTC
+                    {fmtUtc(p.createdAt)}
                   </li>
                 ))}
               </ul>

@@ -15,7 +15,7 @@ import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/lib/shared/units";
-import { fmtDate, fmtDateTime } from "~/lib/shared/format";
+import { fmtDate, fmtUtc } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
@@ -197,7 +197,7 @@ export default function SelectionReport() {
           <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5).</li>
           <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
           <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
-          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {fmtDateTime(f.frozenAt)} UTC; later library changes do not alter this report.</li>
+          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {fmtUtc(f.frozenAt)}; later library changes do not alter this report.</li>
         </ul>
       </section>
 

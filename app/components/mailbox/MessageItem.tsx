@@ -2,7 +2,7 @@
 // the HTML part in a sandboxed frame.
 import type { MailboxMessage } from "~/lib/mail/mailbox-message";
 import { Linkified } from "./Linkified";
-import { fmtInt, fmtUtcSeconds } from "~/lib/shared/format";
+import { fmtInt, fmtUtc } from "~/lib/shared/format";
 
 /** The HTML part in a sandbox without scripts or same-origin access; its links open a new tab. */
 function htmlForFrame(html: string): string {
@@ -17,7 +17,7 @@ export function MessageItem({ m, open }: { m: MailboxMessage; open: boolean }) {
         <span className="min-w-0 flex-1 font-semibold text-slate-900">{m.subject || "(no subject)"}</span>
         <span className="text-sm text-slate-600">to {[...new Set([...m.to, ...m.envelope.to])].join(", ")}</span>
         <time className="text-xs tabular-nums text-slate-500" dateTime={m.receivedAt}>
-          {fmtUtcSeconds(m.receivedAt)}
+          {fmtUtc(m.receivedAt, { seconds: true })}
         </time>
       </summary>
       <div className="space-y-3 border-t border-slate-200 px-3 py-3">

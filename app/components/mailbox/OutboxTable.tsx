@@ -1,6 +1,6 @@
 // The latest outbox rows on the development mailbox page (a record list like the others): sent, or waiting with the last error.
 import { ListTable } from "../ListTable";
-import { fmtUtcSeconds } from "~/lib/shared/format";
+import { fmtUtc } from "~/lib/shared/format";
 
 export type OutboxRowView = { id: number; toAddress: string; subject: string; attempts: number; lastError: string | null; sentAt: string | null; createdAt: string };
 
@@ -13,10 +13,10 @@ export function OutboxTable({ rows }: { rows: OutboxRowView[] }) {
             <td className="py-1 pr-3 tabular-nums text-slate-500">{r.id}</td>
             <td className="pr-3">{r.toAddress}</td>
             <td className="pr-3">{r.subject}</td>
-            <td className="pr-3 tabular-nums text-slate-600">{fmtUtcSeconds(r.createdAt)}</td>
+            <td className="pr-3 tabular-nums text-slate-600">{fmtUtc(r.createdAt, { seconds: true })}</td>
             <td>
               {r.sentAt ? (
-                <span className="text-pass">sent {fmtUtcSeconds(r.sentAt)}</span>
+                <span className="text-pass">sent {fmtUtc(r.sentAt, { seconds: true })}</span>
               ) : (
                 <span className="text-duty-ink">
                   waiting{r.attempts ? ` after ${r.attempts} attempt${r.attempts === 1 ? "" : "s"}` : ""}

@@ -32,14 +32,14 @@ export function fmtDate(when: string | Date | null | undefined): string {
   return p ? `${p.year}-${p.month}-${p.day}` : "—";
 }
 
-/** A moment (UTC) as "2026-12-02 14:09" (with `seconds`, "2026-12-02 14:09:05"); the caller adds " UTC" where the page says so. */
+/** A moment (UTC) as "2026-12-02 14:09" (with `seconds`, "2026-12-02 14:09:05"); `fmtUtc` adds the zone. */
 export function fmtDateTime(when: string | Date | null | undefined, opts: { seconds?: boolean } = {}): string {
   const p = parts(when);
   return p ? `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}${opts.seconds ? `:${p.second}` : ""}` : "—";
 }
 
-/** A moment to the second with its zone, "2026-12-01 22:54:55 UTC" (mail logs); "—" when missing. */
-export function fmtUtcSeconds(when: string | Date | null | undefined): string {
-  const t = fmtDateTime(when, { seconds: true });
+/** A moment with its zone, "2026-12-02 14:09 UTC" (with `seconds`, "2026-12-01 22:54:55 UTC", as mail logs show it); "—" when missing. */
+export function fmtUtc(when: string | Date | null | undefined, opts: { seconds?: boolean } = {}): string {
+  const t = fmtDateTime(when, opts);
   return t === "—" ? t : `${t} UTC`;
 }

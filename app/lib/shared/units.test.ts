@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { qt } from "~/engine/quantityText";
 import { unitLabel } from "~/engine";
 import { fmtQ, picksOf, presetOf, QUANTITIES, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
-import { fmtDate, fmtDateTime, fmtInt, fmtNum, fmtUtcSeconds } from "./format";
+import { fmtDate, fmtDateTime, fmtInt, fmtNum, fmtUtc } from "./format";
 
 describe("unitsOf", () => {
   it("takes the preset and valid overrides, one quantity at a time", () => {
@@ -94,8 +94,8 @@ describe("format", () => {
     expect(fmtDate("2026-12-02")).toBe("2026-12-02");
     // To the second with the zone (mail logs): seconds are kept, not rounded (source: hand-written cases).
     expect(fmtDateTime("2026-12-02T09:05:59.900Z", { seconds: true })).toBe("2026-12-02 09:05:59");
-    expect(fmtUtcSeconds("2026-12-01T22:54:55.123Z")).toBe("2026-12-01 22:54:55 UTC");
-    expect(fmtUtcSeconds(null)).toBe("—");
-    expect(fmtUtcSeconds("garbage")).toBe("—");
+    expect(fmtUtc("2026-12-01T22:54:55.123Z", { seconds: true })).toBe("2026-12-01 22:54:55 UTC");
+    expect(fmtUtc(null, { seconds: true })).toBe("—");
+    expect(fmtUtc("garbage", { seconds: true })).toBe("—");
   });
 });
