@@ -33,20 +33,20 @@ export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "billing.read");
   const manage = can(m.role, "billing.manage");
   const state = await billingState(m.workspace.id);
-  let invoices: InvoiceRow[] = [];
-  let invoicesError: string | null = null;
-  if (manage && state.customerId) {
-    try {
-      invoices = await listInvoices(state.customerId);
-    } catch (e) {
-      invoicesError = billingErrorMessage(e);
-    }
-  }
+  // Three independent reads at once: the invoices (Stripe), the libraries (database) and, before checkout,
+  // what the paid plan costs (Stripe; null: shown at checkout).
+  const [invoiceRead, libraries, price] = await Promise.all([
+    manage && state.customerId
+      ? listInvoices(state.customerId).then((rows) => ({ rows, error: null }), (e: unknown) => ({ rows: [] as InvoiceRow[], error: billingErrorMessage(e) }))
+      : { rows: [] as InvoiceRow[], error: null },
+    listLibraries(viewerOf(m)),
+    state.plan === "free" ? paidPlanPrice() : null,
+  ]);
+  const invoices = invoiceRead.rows;
+  const invoicesError: string | null = invoiceRead.error;
   // Library names and descriptions only (the listing never carries curves); a member without library.read sees none.
-  const shared = (await listLibraries(viewerOf(m))).filter((l) => l.access !== "owner" && l.visibility === "shared");
+  const shared = libraries.filter((l) => l.access !== "owner" && l.visibility === "shared");
   const checkout = readQuery(request.url, "checkout", 40) || null;
-  // Before checkout: what the paid plan costs, from Stripe (null: shown at checkout).
-  const price = state.plan === "free" ? await paidPlanPrice() : null;
   return {
     workspace: { name: m.workspace.name },
     role: m.role,
