@@ -25,7 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = readId(params.id);
   const viewer = viewerOf(m);
   const s = await getSelection(viewer, id);
-  const fieldChecks = renderDeep(await checksOfSelection(viewer, s.id), m.user.units);
+  const fieldChecks = renderDeep(await checksOfSelection(s), m.user.units);
   // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
   return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks };
 }

@@ -132,38 +132,40 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
 /** Every check of a selection, newest first. */
 export async function checkHistory(viewer: Viewer, selectionId: number) {
   const sel = await fieldSelection(viewer, selectionId);
+  return { selection: sel, checks: await checksOf(sel.id) };
+}
+
+/**
+ * The checks recorded against a selection, newest first, each marked when a later version of it exists.
+ * No access rule: callers pass a selection they have already opened for the viewer.
+ */
+export async function checksOf(selectionId: number) {
   const rows = await db()
     .select({ c: fieldChecks, byName: users.name, byWorkspace: workspaces.name })
     .from(fieldChecks)
     .leftJoin(users, eq(users.id, fieldChecks.createdBy))
     .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
-    .where(eq(fieldChecks.selectionId, sel.id))
+    .where(eq(fieldChecks.selectionId, selectionId))
     .orderBy(desc(fieldChecks.id));
   const latestOfChain = new Map<number, number>();
   for (const r of rows) {
     const chain = r.c.chainId ?? r.c.id;
     if (!latestOfChain.has(chain) || latestOfChain.get(chain)! < r.c.version) latestOfChain.set(chain, r.c.version);
   }
-  return {
-    selection: sel,
-    checks: rows.map((r) => {
-      const result = JSON.parse(r.c.resultJson) as CheckResult;
-      return {
-        id: r.c.id,
-        chainId: r.c.chainId ?? r.c.id,
-        version: r.c.version,
-        superseded: latestOfChain.get(r.c.chainId ?? r.c.id)! > r.c.version,
-        verdict: r.c.verdict,
-        grade: r.c.grade,
-        notes: r.c.notes,
-        createdAt: r.c.createdAt.toISOString(),
-        byName: r.byName ?? "",
-        byWorkspace: r.byWorkspace,
-        result,
-        readings: (JSON.parse(r.c.readingsJson) as { readings: Readings }).readings,
-      };
-    }),
-  };
+  return rows.map((r) => ({
+    id: r.c.id,
+    chainId: r.c.chainId ?? r.c.id,
+    version: r.c.version,
+    superseded: latestOfChain.get(r.c.chainId ?? r.c.id)! > r.c.version,
+    verdict: r.c.verdict,
+    grade: r.c.grade,
+    notes: r.c.notes,
+    createdAt: r.c.createdAt.toISOString(),
+    byName: r.byName ?? "",
+    byWorkspace: r.byWorkspace,
+    result: JSON.parse(r.c.resultJson) as CheckResult,
+    readings: (JSON.parse(r.c.readingsJson) as { readings: Readings }).readings,
+  }));
 }
 
 export type CheckHistory = Awaited<ReturnType<typeof checkHistory>>;

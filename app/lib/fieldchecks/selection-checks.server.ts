@@ -1,27 +1,24 @@
 // The field checks of one selection, for the engineer's selection page: who recorded each and when,
 // what the pump delivered, and the verdict with the tolerance rule it was judged by. Only for the
-// selection's own workspace (contractors of a shared project see them on the field pages instead).
-import { data } from "react-router";
-import type { Viewer } from "../libraries";
-import { checkHistory } from "./records.server";
+// selection's own workspace (contractors of a shared project see them on the field pages instead):
+// it takes the selection as `getSelection` opened it for the viewer (limited to their workspace), so the
+// page reads the selection once.
+import type { getSelection } from "../projects/selections.server";
+import { checksOf } from "./records.server";
 import { gradeRule } from "./form";
 
-export async function checksOfSelection(viewer: Viewer, selectionId: number) {
-  const history = await checkHistory(viewer, selectionId);
-  if (!history.selection.own) throw data("No such selection in this workspace.", { status: 404 });
-  return history.checks.map((c) => {
-    return {
-      id: c.id,
-      version: c.version,
-      superseded: c.superseded,
-      createdAt: c.createdAt,
-      byName: c.byName,
-      byWorkspace: c.byWorkspace,
-      flow: c.result.delivered.flow,
-      head: c.result.delivered.head,
-      flowSource: c.result.engine.flowSource,
-      verdict: c.verdict,
-      rule: gradeRule(c.result.grade),
-    };
-  });
+export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
+  return (await checksOf(selection.id)).map((c) => ({
+    id: c.id,
+    version: c.version,
+    superseded: c.superseded,
+    createdAt: c.createdAt,
+    byName: c.byName,
+    byWorkspace: c.byWorkspace,
+    flow: c.result.delivered.flow,
+    head: c.result.delivered.head,
+    flowSource: c.result.engine.flowSource,
+    verdict: c.verdict,
+    rule: gradeRule(c.result.grade),
+  }));
 }
