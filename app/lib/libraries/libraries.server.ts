@@ -98,19 +98,6 @@ export async function listRevisions(libraryId: number) {
     .orderBy(desc(libraryRevisions.number));
 }
 
-/**
- * A pump model or curve set by id with the library and revision number it belongs to, or null. No access
- * rule: each caller applies its own (the model page refuses a locked library, a candidate needs an open one).
- */
-export async function withRevision<T extends typeof pumpModels | typeof curveSets>(table: T, id: number) {
-  const [row] = await db()
-    .select({ row: table, libraryId: libraryRevisions.libraryId, revision: libraryRevisions.number })
-    .from(table)
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, table.revisionId))
-    .where(eq(table.id, id));
-  return row ?? null;
-}
-
 // The analysis of a stored upload is pure and also runs in the mapping page's worker thread: it
 // lives in upload-analysis.ts; the server and scripts reach it from here as before.
 export { analyseStored, encodingOf, savedMappingFor, type StoredAnalysis } from "./upload-analysis";

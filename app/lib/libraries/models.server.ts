@@ -3,9 +3,9 @@
 import { asc, desc, eq } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
-import { curveSets, pumpModels } from "@db/schema";
+import { curveSets, libraryRevisions, pumpModels } from "@db/schema";
 import type { Viewer } from "../auth/viewer.server";
-import { curvesOfRevisions, getLibrary, withRevision } from "./libraries.server";
+import { curvesOfRevisions, getLibrary } from "./libraries.server";
 
 export type ModelFilters = { q?: string; type?: string; size?: string; speed?: number; flow?: number; head?: number; sort?: "name" | "flow" | "head" };
 
@@ -45,11 +45,14 @@ export async function listModels(viewer: Viewer, libraryId: number, f: ModelFilt
 
 /** One model with its curves (points included), through the same access rules as its library. */
 export async function getModel(viewer: Viewer, modelId: number) {
-  const found = await withRevision(pumpModels, modelId);
-  if (!found) throw data("No such pump model in your reach.", { status: 404 });
-  const { row: model, libraryId, revision } = found;
-  const lib = await getLibrary(viewer, libraryId);
+  const [row] = await db()
+    .select({ m: pumpModels, libraryId: libraryRevisions.libraryId, revision: libraryRevisions.number })
+    .from(pumpModels)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, pumpModels.revisionId))
+    .where(eq(pumpModels.id, modelId));
+  if (!row) throw data("No such pump model in your reach.", { status: 404 });
+  const lib = await getLibrary(viewer, row.libraryId);
   if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
-  const curves = (await curvesOfRevisions([model.revisionId])).filter((c) => c.modelId === model.id);
-  return { model, library: { id: lib.id, name: lib.name, owner: lib.ownerName }, revision, curves };
+  const curves = (await curvesOfRevisions([row.m.revisionId])).filter((c) => c.modelId === row.m.id);
+  return { model: row.m, library: { id: lib.id, name: lib.name, owner: lib.ownerName }, revision: row.revision, curves };
 }

@@ -2,14 +2,14 @@
 // are read by `PicksSchema` and added by `addCandidates` in one transaction. A curve already on the
 // system is skipped; one the viewer may not use (another workspace's library, a shared library the plan
 // does not open) refuses the whole request before anything is written.
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { data } from "react-router";
 import * as v from "valibot";
 import { withTransaction, db } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, systems } from "@db/schema";
 import { DEFAULT_ADJUSTMENT, type Adjustment } from "./hydraulics";
-import { candidateCurveOpen, searchableRevisions, type Viewer } from "../libraries";
-import { getSystem, MAX_CANDIDATES } from "./projects.server";
+import { candidateCurveOpen, type Viewer } from "../libraries";
+import { assertOpenCurveSets, getSystem, MAX_CANDIDATES } from "./projects.server";
 
 /** At most this many ticked rows in one request (the search shows fewer; anything more is not a person ticking). */
 export const MAX_PICKS = 20;
@@ -35,19 +35,6 @@ export const PicksSchema = v.pipe(
   v.array(Pick),
 );
 export type Picks = v.InferOutput<typeof PicksSchema>;
-
-/** Refuses (404, nothing written) unless every curve set exists and its library is open to the viewer. */
-async function assertOpenCurveSets(viewer: Viewer, ids: number[]) {
-  const rows = await db()
-    .select({ id: curveSets.id, libraryId: libraryRevisions.libraryId })
-    .from(curveSets)
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
-    .where(inArray(curveSets.id, ids));
-  if (rows.length !== ids.length) throw data("No such pump curve.", { status: 404 });
-  const { open } = await searchableRevisions(viewer);
-  const openLibs = new Set(open.map((o) => o.libraryId));
-  if (rows.some((r) => !openLibs.has(r.libraryId))) throw data("No such pump curve in your reach.", { status: 404 });
-}
 
 export type AddManyResult = { ok: true; added: number; skipped: number } | { ok: false; reason: string };
 

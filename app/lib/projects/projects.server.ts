@@ -21,7 +21,7 @@ import {
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
-import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, withRevision, type LibraryCurveSet, type Viewer } from "../libraries";
+import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
 
 export const MAX_CANDIDATES = 6;
@@ -168,14 +168,20 @@ export async function archiveSystem(viewer: Viewer, systemId: number) {
 }
 
 // ── Candidates ──────────────────────────────────────────────────────────────────────────────
-/** Curve set ids the viewer may use (their revision belongs to a library open to them). */
-async function openCurveSet(viewer: Viewer, curveSetId: number) {
-  const found = await withRevision(curveSets, curveSetId);
-  if (!found) throw data("No such pump curve.", { status: 404 });
+/**
+ * Refuses (404, nothing written) unless every curve set exists and its library is open to the viewer. A candidate
+ * may keep an older revision of an open library: the library must be open, not the revision current.
+ */
+export async function assertOpenCurveSets(viewer: Viewer, ids: number[]) {
+  const rows = await db()
+    .select({ id: curveSets.id, libraryId: libraryRevisions.libraryId })
+    .from(curveSets)
+    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .where(inArray(curveSets.id, ids));
+  if (rows.length !== ids.length) throw data("No such pump curve.", { status: 404 });
   const { open } = await searchableRevisions(viewer);
-  // A candidate may keep an older revision of an open library: the library must be open, not the revision current.
-  if (!open.some((o) => o.libraryId === found.libraryId)) throw data("No such pump curve in your reach.", { status: 404 });
-  return found.row;
+  const openLibs = new Set(open.map((o) => o.libraryId));
+  if (rows.some((r) => !openLibs.has(r.libraryId))) throw data("No such pump curve in your reach.", { status: 404 });
 }
 
 export type CandidateView = {
@@ -225,7 +231,7 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
 
 export async function addCandidate(viewer: Viewer, systemId: number, curveSetId: number, adjustment: Adjustment = DEFAULT_ADJUSTMENT) {
   const s = await getSystem(viewer, systemId);
-  await openCurveSet(viewer, curveSetId);
+  await assertOpenCurveSets(viewer, [curveSetId]);
   return withTransaction(async (tx) => {
     await tx.select({ id: systems.id }).from(systems).where(eq(systems.id, s.id)).for("update");
     const existing = await tx.select({ id: candidates.id, curveSetId: candidates.curveSetId }).from(candidates).where(eq(candidates.systemId, s.id));
