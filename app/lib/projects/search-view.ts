@@ -1,6 +1,5 @@
-// One duty-point search result as the read API returns it (pure; SI units). The search's own
-// result carries the figures; the curve set's model id and library come from the caller when the
-// result does not carry them itself.
+// One duty-point search result as the read API returns it (pure; SI units): the search's own result,
+// which carries the figures, the curve set's model id and library, and the verdict.
 import type { Candidate } from "~/engine";
 
 /** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
@@ -9,22 +8,26 @@ export type SearchResultIn = Pick<
   "id" | "rank" | "label" | "method" | "ratio" | "speed" | "diameter" | "headAtDuty" | "efficiency" | "bepRatio" | "inPor" | "npshr" | "npshMargin" | "shaftPower" | "score" | "reason" | "warnings"
 > & {
   curveSetId: number;
+  modelId: number;
   model: string;
   type: string;
   size: string;
+  library: string;
   setSpeed: number | null;
   setDiameter: number | null;
+  /** The search's verdict of the pump as offered, or null when it gives none. */
+  verdict: unknown;
 };
 
 export type SearchResultView = {
   rank: number;
-  modelId: number | null;
+  modelId: number;
   curveSetId: number;
   label: string;
   model: string;
   type: string;
   size: string;
-  library: string | null;
+  library: string;
   /** The published curve searched: speed, rpm; impeller diameter, m. */
   curve: { speed: number | null; impellerDiameter: number | null };
   /** How the curve meets the duty: none (as published), speed (affinity laws) or trim (approximate). */
@@ -47,21 +50,19 @@ export type SearchResultView = {
 
 const KIND = { direct: "none", trim: "trim", speed: "speed" } as const;
 
-export function searchResultView(r: SearchResultIn, meta?: { modelId: number; library: string }): SearchResultView {
-  const extra = r as SearchResultIn & { modelId?: number; library?: string | { name?: string }; verdict?: unknown };
-  const library = typeof extra.library === "string" ? extra.library : extra.library?.name ?? meta?.library ?? null;
+export function searchResultView(r: SearchResultIn): SearchResultView {
   return {
     rank: r.rank,
-    modelId: extra.modelId ?? meta?.modelId ?? null,
+    modelId: r.modelId,
     curveSetId: r.curveSetId,
     label: r.label,
     model: r.model,
     type: r.type,
     size: r.size,
-    library,
+    library: r.library,
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
     adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter },
-    verdict: extra.verdict ?? null,
+    verdict: r.verdict ?? null,
     figures: {
       headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,
       npshMargin: r.npshMargin, bepRatio: r.bepRatio, inPor: r.inPor, score: r.score,

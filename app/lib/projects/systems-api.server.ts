@@ -5,7 +5,7 @@ import type { Viewer } from "../libraries";
 import { systemWorkbench } from "./projects.server";
 import { searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchView } from "./workbench-view";
-import { searchResultView, type SearchResultIn } from "./search-view";
+import { searchResultView } from "./search-view";
 
 export const SI_UNITS = { flow: "m3/s", head: "m", pressure: "Pa", power: "W", diameter: "m", length: "m", speed: "rpm", efficiency: "fraction" } as const;
 
@@ -31,6 +31,6 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
-    results: res.results.map((r) => searchResultView(r as SearchResultIn)),
+    results: res.results.map(searchResultView),
   };
 }
