@@ -85,10 +85,6 @@ export function packedResult(store: PointStore, stats: ValidationStats): Validat
     get curveSets() {
       return (curveSets ??= store.sets.map((_, i) => curveSetOf(store, i)));
     },
-    set curveSets(c: CurveSet[]) {
-      stores.delete(result); // replaced: the arrays no longer tell
-      curveSets = c;
-    },
     problems: [],
     stats,
   };
