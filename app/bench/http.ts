@@ -8,7 +8,6 @@ import { spawn } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import autocannon from "autocannon";
-import { readFileSync } from "node:fs";
 import { runCalc } from "~/lib/calc-api";
 import { TOKEN_CACHE_MS } from "~/lib/auth/token-cache.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -19,6 +18,7 @@ import { addCandidate, createProject, createSystem, listCandidates, selectCandid
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/projects/hydraulics";
 import { makeMember } from "~/test/harness";
 import { runAsScript } from "./run-script";
+import { cpuMs } from "./measure";
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 const BODY = JSON.stringify({ flow_m3s: 0.1, diameter_m: 0.2, length_m: 100, roughness_m: 0.00026, temperature_c: 15.6 });
@@ -100,12 +100,6 @@ export async function appServer(
         child.kill("SIGTERM");
       }),
   };
-}
-
-/** CPU time of process `pid` so far, ms (Linux /proc; utime + stime at 100 ticks a second). */
-function cpuMs(pid: number): number {
-  const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
-  return (Number(fields[11]) + Number(fields[12])) * 10;
 }
 
 /**

@@ -41,6 +41,7 @@ import { runJob } from "~/lib/libraries/analysis-jobs";
 import { workspacesOf } from "~/lib/auth/guards.server";
 import { stopAnalysisWorker, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import { makeMember } from "~/test/harness";
+import { cpuMs, median } from "./measure";
 
 export interface BenchRow {
   label: string;
@@ -60,12 +61,7 @@ async function serverCpuReader(): Promise<() => number | null> {
   try {
     const [{ f }] = (await getPool().query("SELECT @@pid_file AS f")) as { f: string }[];
     const pid = readFileSync(f, "utf8").trim();
-    const hz = 100; // USER_HZ on Linux
-    const read = () => {
-      const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
-      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
-      return (Number(fields[11]) + Number(fields[12])) / hz; // utime + stime
-    };
+    const read = () => cpuMs(pid) / 1000;
     read();
     return () => read();
   } catch {
@@ -221,11 +217,11 @@ export function formatTable(rows: BenchRow[]): string {
   // ratio against the LOAD DATA → curve_points row of the same run (rows of a run share the " #n" suffix)
   const runOf = (label: string) => /#\d+$/.exec(label)?.[0] ?? "";
   const loadRate = new Map(rows.filter((r) => r.label.startsWith("(c)")).map((r) => [runOf(r.label), r.rows / r.seconds]));
-  const median = [...loadRate.values()].sort((x, y) => x - y)[loadRate.size >> 1];
+  const middle = median([...loadRate.values()]);
   const out = [["", "rows", "ms", "server CPU ms", "client CPU ms", "rows/s", "vs (c)"]];
   for (const r of rows) {
     const rate = r.rows / r.seconds;
-    const base = loadRate.get(runOf(r.label)) ?? median;
+    const base = loadRate.get(runOf(r.label)) ?? middle;
     out.push([
       r.label,
       String(r.rows),
@@ -246,19 +242,18 @@ export function summary(rows: BenchRow[], points: number, loadBefore: number[]):
   const a = pick("(a)"), c = pick("(c)"), c2 = pick("(c')");
   const ms = (r: BenchRow) => `${Math.round(r.seconds * 1000)} ms`;
   const ratios = a.map((r, i) => c[i].seconds / r.seconds);
-  const med = (xs: number[]) => [...xs].sort((x, y) => x - y)[xs.length >> 1];
   const rate = (r: BenchRow) => Math.round(r.rows / r.seconds).toLocaleString("en-GB");
   const cpuRatio = a.every((r, i) => r.serverCpu !== undefined && c[i].serverCpu !== undefined) ? a.map((r, i) => c[i].serverCpu! / r.serverCpu!) : [];
   const fmtLoad = (l: number[]) => l.map((x) => x.toFixed(1)).join(" ");
-  const cpuMs = (rs: BenchRow[], k: "serverCpu" | "clientCpu") => (rs.every((r) => r[k] !== undefined) ? Math.round(med(rs.map((r) => r[k]!)) * 1000) : "?");
+  const cpuMedianMs = (rs: BenchRow[], k: "serverCpu" | "clientCpu") => (rs.every((r) => r[k] !== undefined) ? Math.round(median(rs.map((r) => r[k]!)) * 1000) : "?");
   return [
     `import of ${points.toLocaleString("en-GB")} points (a) vs LOAD DATA LOCAL INFILE of the same rows into curve_points (c), per run:`,
     ...a.map((r, i) => `  run ${i + 1}: import ${ms(r)}, LOAD DATA ${ms(c[i])} (into an empty copy: ${ms(c2[i])}) → ratio ${ratios[i].toFixed(2)}× (goal ≥ 0.60×)`),
-    `  median ratio ${med(ratios).toFixed(2)}×` +
-      (cpuRatio.length ? ` · by the server's CPU time: median ${med(cpuRatio).toFixed(2)}× (LOAD DATA's server CPU / the import's)` : "") +
-      ` · against the empty copy: median ${med(a.map((r, i) => c2[i].seconds / r.seconds)).toFixed(2)}×`,
-    `CPU time, medians: the import ${cpuMs(a, "serverCpu")} ms of the server's and ${cpuMs(a, "clientCpu")} ms of this process's; ` +
-      `LOAD DATA ${cpuMs(c, "serverCpu")} ms and ${cpuMs(c, "clientCpu")} ms`,
+    `  median ratio ${median(ratios).toFixed(2)}×` +
+      (cpuRatio.length ? ` · by the server's CPU time: median ${median(cpuRatio).toFixed(2)}× (LOAD DATA's server CPU / the import's)` : "") +
+      ` · against the empty copy: median ${median(a.map((r, i) => c2[i].seconds / r.seconds)).toFixed(2)}×`,
+    `CPU time, medians: the import ${cpuMedianMs(a, "serverCpu")} ms of the server's and ${cpuMedianMs(a, "clientCpu")} ms of this process's; ` +
+      `LOAD DATA ${cpuMedianMs(c, "serverCpu")} ms and ${cpuMedianMs(c, "clientCpu")} ms`,
     `parse+validate (analyseCsv, warm): ${pick("parse+validate only (analyseCsv, again)").map(rate).join(", ")} rows/s wall; ` +
       `${pick("parse+validate only, CPU time").map(rate).join(", ")} rows/s of CPU time (goal ≥ 1 000 000); ` +
       `the worker's whole job (decode+parse+validate+plan): ${pick("worker's job").map(rate).join(", ")} rows/s of CPU time`,

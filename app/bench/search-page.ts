@@ -24,6 +24,7 @@ import { makeMember } from "~/test/harness";
 import { appServer, timed } from "./http";
 import { bigLibraryCsv } from "~/test/big-library";
 import { runAsScript } from "./run-script";
+import { median } from "./measure";
 
 const RUNS = Number(process.env.BENCH_SEARCH_RUNS ?? 30);
 // Steady state: the server's JIT needs some dozens of requests before a page's code is hot (the first 30
@@ -33,7 +34,6 @@ const WARM = Number(process.env.BENCH_SEARCH_WARM ?? 60);
 const STAGES = (process.env.BENCH_SEARCH_STAGES ?? "10000,100000").split(",").map(Number).filter((n) => Number.isInteger(n) && n > 0);
 const PER_LIBRARY = 10_000;
 
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 async function timeIt(n: number, f: () => unknown | Promise<unknown>): Promise<number[]> {
   const t: number[] = [];
   for (let i = 0; i < n; i++) {
