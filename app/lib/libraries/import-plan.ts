@@ -178,8 +178,9 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
   const packed = packedOf(analysis.result);
   const store = packed ?? storeOfGood(analysis.result.curveSets);
   const total = packed ? packed.sets.length : analysis.result.curveSets.length;
+  // storeOfGood keeps only writable sets; a fast-path store is checked here, on its typed arrays
   const good: number[] = [];
-  for (let s = 0; s < store.sets.length; s++) if (writableInStore(store, s)) good.push(s);
+  for (let s = 0; s < store.sets.length; s++) if (!packed || writableInStore(store, s)) good.push(s);
   if (good.length === 0) return null;
   const modelIndex = new Map<string, number>();
   const models: PlannedModel[] = [];
