@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { generateDemo } from "../../../fixtures/demo/generate";
 import { makeBigCsv } from "../../../fixtures/csv/make-big";
 import { analyseCsv } from "./index";
+import { firstCurveSets } from "./packed";
 import { fixture } from "./test-helpers";
 
 const demo = generateDemo();
@@ -34,6 +35,16 @@ describe("fast path and full path agree", () => {
     expect(analyseCsv(demo[0].files.find((f) => f.variant === "semicolon")!.text).fastPath).toBe(true); // source: decimal comma, long layout
     expect(analyseCsv(fixture("bad.csv")).fastPath).toBe(false); // source: bad.csv has one fault of each kind
     expect(analyseCsv(demo[0].files.find((f) => f.variant === "wide")!.text).fastPath).toBe(false); // source: wide layout is not handled by fast.ts
+  });
+
+  it("firstCurveSets: the first n curve sets of either path, equal to the whole list's (a preview of a fast-path result builds only those)", () => {
+    const text = makeBigCsv({ points: 2_000 });
+    for (const a of [analyseCsv(text), analyseCsv(text, undefined, { fast: false })]) {
+      const first = firstCurveSets(a.result, 3);
+      expect(first).toHaveLength(3);
+      expect(first).toEqual(a.result.curveSets.slice(0, 3)); // source: definition (the list's own first three)
+      expect(firstCurveSets(a.result, 10_000)).toEqual(a.result.curveSets); // source: definition (n past the end: all)
+    }
   });
 
   it("one bad cell at the end of a big file sends it down the full path, which names it", () => {

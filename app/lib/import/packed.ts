@@ -92,6 +92,12 @@ export function packedResult(store: PointStore, stats: ValidationStats): Validat
   return result;
 }
 
+/** The first `n` curve sets of a result; of a fast-path result only those are made into objects (a preview needs no more). */
+export function firstCurveSets(result: ValidationResult, n: number): CurveSet[] {
+  const store = stores.get(result);
+  return store ? Array.from({ length: Math.min(n, store.sets.length) }, (_, i) => curveSetOf(store, i)) : result.curveSets.slice(0, n);
+}
+
 /** The point store behind a fast-path result (every curve set ok), or null for any other result. */
 export function packedOf(result: ValidationResult): PointStore | null {
   return stores.get(result) ?? null;

@@ -7,6 +7,7 @@ import {
   analyseCsv, curveName, curveNameOfKey, decodeBytes, encodingNamed, MappingSchema,
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
+import { firstCurveSets } from "../import/packed";
 
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;
@@ -109,7 +110,7 @@ export function summarise(analysis: StoredAnalysis) {
     stats: result.stats,
     problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
     problemCount: problems.length,
-    preview: result.curveSets.slice(0, PREVIEW_CURVES).map((c) => ({
+    preview: firstCurveSets(result, PREVIEW_CURVES).map((c) => ({
       id: c.key,
       label: `${curveName(c.model, c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,
       points: thin(c.points).map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
