@@ -41,19 +41,20 @@ export async function action({ request, params }: Route.ActionArgs) {
     const policy = form.get("policy");
     if (policy !== null && policy !== "skip-curves" && policy !== "drop-points")
       return badRequest("The 'policy' field must be skip-curves or drop-points.", { errors: [{ field: "policy", message: "skip-curves or drop-points" }] });
+    const wantsImport = form.get("import") === "1";
     const uploadId = await storeUpload(viewer, id.output, file);
     // Decoding, parsing and validating happen once, in the analysis worker for big files (never on
     // the main thread): the report and, with import=1, the plan the import writes.
     const { upload, lib } = await getUploadMeta(viewer, id.output, uploadId);
     let analysis;
     try {
-      analysis = await analyseForImport(upload, { mappingJson: lib.mappingJson, mapping, policy: policy ?? undefined, report: true });
+      analysis = await analyseForImport(upload, { mappingJson: lib.mappingJson, mapping, policy: policy ?? undefined, report: true, plan: wantsImport });
     } catch (e) {
       if (e instanceof AnalysisFailed && e.mappingRefused) return badRequest("The mapping is not valid.", { errors: e.issues.map((i) => ({ field: `mapping.${(i.path ?? []).join(".")}`, message: i.message })) });
       throw e;
     }
     const report = renderDeep({ uploadId, ...analysis.report! }, c.units); // curve names in SI for a token (the caller's units on our pages)
-    if (form.get("import") !== "1") return Response.json({ report }, { status: 201 });
+    if (!wantsImport) return Response.json({ report }, { status: 201 });
     try {
       if (analysis.mappingRefused) throw new MappingRefused(analysis.mappingRefused);
       if (!analysis.plan) throw new UploadRejected("No curve in this file passed the checks; nothing to import.");

@@ -17,6 +17,8 @@ export type AnalysisJob =
       policy?: Policy;
       /** Also return the report the API answers with. */
       report?: boolean;
+      /** Make the import plan (default true; a report-only call sets false: no plan, no LOAD DATA lines). */
+      plan?: boolean;
     };
 
 export type ImportAnalysis = {
@@ -36,7 +38,7 @@ export function runJob(job: AnalysisJob): AnalysisOutput {
   if (job.policy && a.mapping.policy !== job.policy) a = analyseStored(job.bytes, lib, { ...a.mapping, policy: job.policy });
   const check = v.safeParse(MappingSchema, a.mapping);
   const mappingRefused = check.success ? null : check.issues.map((i) => i.message).join("; ");
-  return { plan: mappingRefused ? null : planImport(a), mappingRefused, report: job.report ? uploadReport(a) : null };
+  return { plan: mappingRefused || job.plan === false ? null : planImport(a), mappingRefused, report: job.report ? uploadReport(a) : null };
 }
 
 /** Buffers of an output that can be moved to the other thread instead of copied. */

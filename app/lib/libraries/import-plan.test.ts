@@ -7,6 +7,7 @@ import { analyseCsv, SI_FACTOR } from "../import";
 import { packedOf } from "../import/packed";
 import { fixture } from "../import/test-helpers";
 import { planImport, pointLines, setLines, writable } from "./import-plan";
+import { runJob, type ImportAnalysis } from "./analysis-jobs";
 import { POINTS_PER_PIECE, pointsText, setsText, withIds } from "./import-write.server";
 
 const plain = (p: ReturnType<typeof planImport>) =>
@@ -86,5 +87,16 @@ describe("the LOAD DATA text from the worker's lines", () => {
     const setsExpected = join(setsText(plan, modelIds, 42));
     expect(join(withIds(sets, identity, (i) => `${modelIds.get(plan.models[plan.setModel[i]].name)}\t42`, 2000))).toBe(setsExpected); // source: setsText, the writer's own formatting
     expect(setsExpected.split("\n")[0]).toBe(`10000000\t42\t2900\t0.2\t0\t${3 * SI_FACTOR.flow["m3/h"]!}\t40\t${40 - 2 / 3}\t3`); // source: construction (A-1: 3 points, flow 0–3 m³/h times the SI factor 1/3600 as the importer applies it, head 40 → 40 − 2/3 m, Ø200 mm)
+  });
+});
+
+describe("the import job", () => {
+  it("makes the plan by default and leaves it (and its LOAD DATA lines) out of a report-only call", () => {
+    const bytes = new TextEncoder().encode(fixture("long-si.csv"));
+    const full = runJob({ kind: "import", bytes, mappingJson: null, report: true }) as ImportAnalysis;
+    const reportOnly = runJob({ kind: "import", bytes, mappingJson: null, report: true, plan: false }) as ImportAnalysis;
+    expect(full.plan).not.toBeNull(); // source: long-si.csv imports (fixtures/csv)
+    expect(reportOnly.plan).toBeNull(); // source: definition (plan: false)
+    expect(reportOnly.report).toEqual(full.report); // source: definition (the report does not depend on the plan)
   });
 });
