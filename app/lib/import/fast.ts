@@ -8,7 +8,7 @@
  */
 import type { Mapping } from "./mapping";
 import { parseNumber } from "./numbers";
-import { packedResult, POINT_WIDTH, PointStore, type SetHead } from "./packed";
+import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
@@ -227,15 +227,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       const eta = (density * G_STANDARD * flow * head) / pow;
       if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
     }
-    const n = store.next();
-    const o = n * POINT_WIDTH;
-    const vals = store.values;
-    vals[o] = flow;
-    vals[o + 1] = head;
-    vals[o + 2] = eff;
-    vals[o + 3] = pow;
-    vals[o + 4] = num[6];
-    store.lines[n] = line;
+    store.lines[store.add(flow, head, eff, pow, num[6])] = line;
     prevFlow = flow;
     prevHead = head;
     curPoints++;

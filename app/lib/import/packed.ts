@@ -48,6 +48,19 @@ export class PointStore {
     return this.count++;
   }
 
+  /** Appends one point (NaN for an absent efficiency, power or NPSHr); returns its index. */
+  add(flow: number, head: number, efficiency: number, power: number, npshr: number): number {
+    const n = this.next();
+    const o = n * POINT_WIDTH;
+    const v = this.values;
+    v[o] = flow;
+    v[o + 1] = head;
+    v[o + 2] = efficiency;
+    v[o + 3] = power;
+    v[o + 4] = npshr;
+    return n;
+  }
+
   end(set: number): number {
     return set + 1 < this.starts.length ? this.starts[set + 1] : this.count;
   }

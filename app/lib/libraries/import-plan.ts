@@ -160,14 +160,7 @@ function storeOfGood(curveSets: CurveSet[]): PointStore {
   const store = new PointStore(ok.reduce((n, c) => n + c.points.length, 0));
   for (const c of ok) {
     store.open(c);
-    for (const p of c.points) {
-      const o = store.next() * POINT_WIDTH;
-      store.values[o] = p.flow;
-      store.values[o + 1] = p.head;
-      store.values[o + 2] = p.efficiency ?? NaN;
-      store.values[o + 3] = p.power ?? NaN;
-      store.values[o + 4] = p.npshr ?? NaN;
-    }
+    for (const p of c.points) store.add(p.flow, p.head, p.efficiency ?? NaN, p.power ?? NaN, p.npshr ?? NaN);
   }
   return store;
 }
