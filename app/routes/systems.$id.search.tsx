@@ -95,30 +95,29 @@ export async function action({ request, params }: Route.ActionArgs) {
   const m = await requireMember(request, "project.write");
   const id = readId(params.id);
   const form = await readFormSafe(request);
-  // One row's own "Add" button (`one=<curveSetId>:<method>`): that pump only, whatever else is ticked.
+  const viewer = viewerOf(m);
+  let r: { ok: true } | { ok: false; reason: string };
   if (form.has("one")) {
-    const pick = v.safeParse(PicksSchema, [form.get("one")]);
-    if (!pick.success) throw data({ errors: { one: pick.issues[0].message } }, { status: 400 });
-    const [{ curveSetId, method }] = pick.output;
-    const r = await addCandidate(viewerOf(m), id, curveSetId, { ...DEFAULT_ADJUSTMENT, method });
-    if (!r.ok) return { error: r.reason };
-    throw redirect(`/systems/${id}`);
+    // One row's own "Add" button (`one=<curveSetId>:<method>`): that pump only, whatever else is ticked.
+    const [{ curveSetId, method }] = readPicks([form.get("one")], "one");
+    r = await addCandidate(viewer, id, curveSetId, { ...DEFAULT_ADJUSTMENT, method });
+  } else if (form.get("intent") === "add-many" || form.has("add")) {
+    // Several ticked rows ("Add the ticked pumps"), all or nothing, in one transaction.
+    r = await addCandidates(viewer, id, readPicks(form.getAll("add"), "add"));
+  } else {
+    // The same as `one`, as two fields (curveSetId, method): kept for scripts that post them.
+    const method = form.get("method");
+    r = await addCandidate(viewer, id, formId(form, "curveSetId"), { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" });
   }
-  // Several ticked rows ("Add the ticked pumps"), all or nothing, in one transaction.
-  if (form.get("intent") === "add-many" || form.has("add")) {
-    const picks = v.safeParse(PicksSchema, form.getAll("add"));
-    if (!picks.success) throw data({ errors: { add: picks.issues[0].message } }, { status: 400 });
-    const r = await addCandidates(viewerOf(m), id, picks.output);
-    if (!r.ok) return { error: r.reason };
-    throw redirect(`/systems/${id}`);
-  }
-  // The same as `one`, as two fields (curveSetId, method): kept for scripts that post them.
-  const curveSetId = formId(form, "curveSetId");
-  const method = form.get("method");
-  const adj = { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" } as typeof DEFAULT_ADJUSTMENT;
-  const r = await addCandidate(viewerOf(m), id, curveSetId, adj);
   if (!r.ok) return { error: r.reason };
   throw redirect(`/systems/${id}`);
+}
+
+/** The ticked rows posted under `field`, or a 400 naming that field. */
+function readPicks(values: unknown[], field: "one" | "add") {
+  const picks = v.safeParse(PicksSchema, values);
+  if (!picks.success) throw data({ errors: { [field]: picks.issues[0].message } }, { status: 400 });
+  return picks.output;
 }
 
 const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
