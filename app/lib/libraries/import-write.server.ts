@@ -12,7 +12,7 @@ import { withTransaction } from "@db/client.server";
 import { libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
 import { bulkLoad, bulkText, withoutKeyChecks } from "./bulk-load.server";
-import type { ImportPlan, Lines } from "./import-plan";
+import { setFigures, type ImportPlan, type Lines } from "./import-plan";
 import type { ProgressSink } from "./import-progress.server";
 
 export type ImportResult = { revisionId: number; number: number; models: number; curves: number; points: number; skipped: number };
@@ -94,19 +94,12 @@ const optField = (x: number) => (x === x ? String(x) : "\\N");
 
 /** Curve sets as LOAD DATA text, in pieces (the stream takes one per turn of the event loop). */
 export function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
-  const v = plan.values;
   const curves = plan.setModel.length;
   let s = "";
   for (let i = 0; i < curves; i++) {
-    const a = plan.starts[i], b = plan.starts[i + 1];
-    let lo = Infinity, hi = -Infinity;
-    for (let k = a; k < b; k++) {
-      const h = v[k * 5 + 1];
-      if (h < lo) lo = h;
-      if (h > hi) hi = h;
-    }
+    const [speed, impeller, qMin, qMax, hMax, hMin, count] = setFigures(plan, i);
     const modelId = modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))!;
-    s += `${modelId}\t${revisionId}\t${optField(plan.setSpeed[i])}\t${optField(plan.setImpeller[i])}\t${v[a * 5]}\t${v[(b - 1) * 5]}\t${hi}\t${lo}\t${b - a}\n`;
+    s += `${modelId}\t${revisionId}\t${optField(speed)}\t${optField(impeller)}\t${qMin}\t${qMax}\t${hMax}\t${hMin}\t${count}\n`;
     if (i % SETS_PER_PIECE === SETS_PER_PIECE - 1) {
       yield s;
       s = "";
