@@ -1,7 +1,8 @@
 // What a member may do with one candidate in the table: adjust it (writers), select it into a
 // frozen selection (selection writers, only with an operating point), remove it (writers).
 import { Form } from "react-router";
-import type { FormErrors, UnitChoice } from "~/lib/projects/system-form";
+import type { FormErrors } from "~/lib/projects/system-form";
+import type { UnitChoice } from "~/lib/shared/units";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
 import { PostButton } from "~/components/PostButton";

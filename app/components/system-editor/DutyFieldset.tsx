@@ -1,6 +1,6 @@
 // The duty section of the editor: duty point, margins, hours, tariff, the verdict's flow band,
 // and the check of the duty head against the system curve.
-import { labelOf } from "~/lib/projects/system-form";
+import { labelOf } from "~/lib/shared/units";
 import type { DutyCheck } from "~/lib/projects/hydraulics";
 import { NumberField as In } from "./NumberField";
 import type { FieldsetProps } from "./types";

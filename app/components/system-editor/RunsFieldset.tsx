@@ -1,6 +1,7 @@
 // The pipe runs of the editor: one fieldset per run (table size or inner diameter, length,
 // material, roughness, fittings), remove on save, and the buttons that add a run.
-import { EDITOR_FITTINGS, labelOf, MATERIAL_OPTIONS } from "~/lib/projects/system-form";
+import { EDITOR_FITTINGS, MATERIAL_OPTIONS } from "~/lib/projects/system-form";
+import { labelOf } from "~/lib/shared/units";
 import { PipePicker } from "./PipePicker";
 import { NumberField as In } from "./NumberField";
 import type { FieldsetProps, SystemFormValues } from "./types";

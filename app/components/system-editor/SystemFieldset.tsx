@@ -1,5 +1,5 @@
 // The system section of the editor: name, fluid, kind of system, static heads, suction conditions.
-import { labelOf } from "~/lib/projects/system-form";
+import { labelOf } from "~/lib/shared/units";
 import { NumberField as In } from "./NumberField";
 import type { FieldsetProps } from "./types";
 

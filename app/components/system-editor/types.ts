@@ -1,4 +1,5 @@
-import type { systemFormValues, FormErrors, UnitChoice } from "~/lib/projects/system-form";
+import type { systemFormValues, FormErrors } from "~/lib/projects/system-form";
+import type { UnitChoice } from "~/lib/shared/units";
 
 /** What the system form shows: the stored inputs in the user's units, as strings. */
 export type SystemFormValues = ReturnType<typeof systemFormValues>;

@@ -2,11 +2,9 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
-import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
+import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
-
-export { labelOf, unitOf, type UnitChoice };
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -24,7 +22,6 @@ export const EDITOR_FITTINGS = [
   ["entrance-sharp", "Entrance (sharp)"],
   ["exit", "Exit into tank"],
 ] as const;
-
 
 /** SI → display number, rounded to a sensible number of significant digits for a form field. */
 export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): string {
