@@ -29,15 +29,15 @@ function makeLucia() {
     getUserAttributes: (a) => {
       const picks = picksOf(a.units);
       return {
-      email: a.email,
-      name: a.name,
-      emailVerified: Boolean(a.emailVerified),
-      unitSystem: a.unitSystem,
-      /** The display unit of every quantity: the preset with the user's overrides (unknown ids fall back to the preset). */
-      units: unitsOf(a.unitSystem, picks),
-      /** What the user picked per quantity (the account page's selects; the rest follows the preset). */
-      unitPicks: picks,
-      currentWorkspaceId: a.currentWorkspaceId,
+        email: a.email,
+        name: a.name,
+        emailVerified: Boolean(a.emailVerified),
+        unitSystem: a.unitSystem,
+        /** The display unit of every quantity: the preset with the user's overrides (unknown ids fall back to the preset). */
+        units: unitsOf(a.unitSystem, picks),
+        /** What the user picked per quantity (the account page's selects; the rest follows the preset). */
+        unitPicks: picks,
+        currentWorkspaceId: a.currentWorkspaceId,
       };
     },
     getSessionAttributes: (a) => ({ createdAt: a.createdAt, userAgent: a.userAgent, ipAddress: a.ipAddress }),
