@@ -57,17 +57,20 @@ describe("parseNumber", () => {
 });
 
 describe("guessHeader — header examples from the task brief", () => {
+  const flowHeaders = [
+    ["Flow (gpm)", "gpm"],
+    ["Q [m3/h]", "m3/h"],
+    ["Q l/s", "l/s"],
+    ["m³/h", "m3/h"],
+    ["US gpm", "gpm"],
+  ].map(([header, unit]) => [header, "flow", unit]);
   it.each([
-    ["Flow (gpm)", "flow", "gpm"],
-    ["Q [m3/h]", "flow", "m3/h"],
+    ...flowHeaders,
     ["H ft", "head", "ft"],
     ["Head [m]", "head", "m"],
     ["Eff %", "efficiency", "%"],
     ["P2 kW", "power", "kW"],
     ["NPSHr (ft)", "npshr", "ft"],
-    ["Q l/s", "flow", "l/s"],
-    ["m³/h", "flow", "m3/h"],
-    ["US gpm", "flow", "gpm"],
     ["Power (hp)", "power", "hp"],
     ["Impeller (in)", "impeller", "in"],
     ["Speed (rpm)", "speed", "rpm"],
