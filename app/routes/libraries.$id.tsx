@@ -2,7 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, pendingUploads, updateLibrary } from "~/lib/libraries";
+import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, MODEL_PAGE_ROWS, pendingUploads, updateLibrary } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, fromChosen, labelOf, renderUnits } from "~/lib/shared/units";
 import { can } from "~/lib/auth/permissions";
@@ -19,6 +19,8 @@ import { ListTable } from "~/components/ListTable";
 import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
 import { fmtUtc, fmtInt } from "~/lib/shared/format";
+import { pageOf } from "~/lib/shared/paging";
+import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
 
@@ -32,6 +34,7 @@ const LibraryQuery = v.object({
   head: QueryText(40),
   sort: QueryText(10),
   model: QueryId,
+  page: QueryId, // 1.. (a page past the last shows the last)
   imported: QueryText(12),
   import: QueryId,
 });
@@ -68,8 +71,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     writer ? pendingUploads(id) : Promise.resolve([]),
     writer ? recentImports(id) : Promise.resolve([]),
   ]);
-  const modelId = query.model || models[0]?.id;
-  const selected = !locked && modelId ? await getModel(viewer, modelId).catch(() => null) : null;
+  const paging = pageOf(models.length, MODEL_PAGE_ROWS, query.page);
+  const shown = models.slice(paging.first, paging.first + MODEL_PAGE_ROWS);
+  // The model asked for when it is one of the listed (filtered) models of the current revision, else the page's first.
+  const asked = query.model ? models.find((mm) => mm.id === query.model) : undefined;
+  const modelId = asked?.id ?? shown[0]?.id;
+  const selected = modelId ? await getModel(viewer, modelId) : null;
   return {
     lib: { id: lib.id, name: lib.name, description: lib.description, visibility: lib.visibility, owner: lib.ownerName, access: lib.access },
     locked,
@@ -77,7 +84,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canPublish: owner && can(m.role, "library.publish"),
     unitSystem: sys,
     filters: { q: qp("q"), type: qp("type"), size: qp("size"), speed: qp("speed"), flow: qp("flow"), head: qp("head"), sort: filters.sort },
-    models: models.map((mm) => ({
+    paging,
+    modelMissing: query.model && !asked ? query.model : null,
+    models: shown.map((mm) => ({
       id: mm.id,
       name: mm.name,
       type: mm.type,
@@ -128,6 +137,9 @@ const VIS_LABEL = {
 export default function LibraryPage() {
   const d = useLoaderData<typeof loader>();
   const { errors, notice } = useFormResult();
+  // A model's link keeps the filters and the page of the list.
+  const listQuery = Object.entries(d.filters).filter(([, x]) => x);
+  const modelHref = (id: number) => `?${new URLSearchParams([...listQuery, ...(d.paging.page > 1 ? [["page", String(d.paging.page)]] : []), ["model", String(id)]])}`;
   return (
     <div className="space-y-6">
       <PageHead
@@ -194,26 +206,35 @@ export default function LibraryPage() {
               </label>
               <button className="btn-quiet">Filter</button>
             </Form>
+            {d.modelMissing ? <Notice>Model {d.modelMissing} is not among this library&apos;s current models (or the filters hide it); the first listed is shown.</Notice> : null}
             {d.models.length === 0 ? (
               <p className="text-sm text-slate-600">No models{d.writer ? " yet: upload a vendor CSV below." : " match."}</p>
             ) : (
               <div className="grid gap-4 lg:grid-cols-[minmax(18rem,26rem)_1fr]">
-                <div className="max-h-[36rem] overflow-y-auto">
-                  <ListTable head={["Model", "Curves", "Max flow", "Max head"]} className="" label="Models" sticky>
-                    {d.models.map((mm) => (
-                      <tr key={mm.id} className={`border-t border-slate-100 ${mm.id === d.modelId ? "bg-brand-50" : ""}`}>
-                        <td className="py-1">
-                          <a href={`?${new URLSearchParams({ ...Object.fromEntries(Object.entries(d.filters).filter(([, x]) => x)), model: String(mm.id) })}`} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
-                            {mm.name}
-                          </a>
-                          <div className="text-xs text-slate-600">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
-                        </td>
-                        <td>{mm.curveCount}</td>
-                        <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>
-                        <td>{fmtHead(d.unitSystem, mm.headMax)}</td>
-                      </tr>
-                    ))}
-                  </ListTable>
+                <div>
+                  <div className="max-h-[36rem] overflow-y-auto">
+                    <ListTable head={["Model", "Curves", "Max flow", "Max head"]} className="" label="Models" sticky>
+                      {d.models.map((mm) => (
+                        <tr key={mm.id} className={`border-t border-slate-100 ${mm.id === d.modelId ? "bg-brand-50" : ""}`}>
+                          <td className="py-1">
+                            <a href={modelHref(mm.id)} aria-current={mm.id === d.modelId ? "true" : undefined} className="font-semibold">
+                              {mm.name}
+                            </a>
+                            <div className="text-xs text-slate-600">{[mm.type, mm.size, mm.speeds.map((x) => `${Math.round(x)} rpm`).join("/")].filter(Boolean).join(" · ")}</div>
+                          </td>
+                          <td>{mm.curveCount}</td>
+                          <td>{fmtFlow(d.unitSystem, mm.flowMax)}</td>
+                          <td>{fmtHead(d.unitSystem, mm.headMax)}</td>
+                        </tr>
+                      ))}
+                    </ListTable>
+                  </div>
+                  {d.paging.pages > 1 ? (
+                    <p className="mt-2 text-sm text-slate-600">
+                      Models {fmtInt(d.paging.first + 1)}–{fmtInt(d.paging.first + d.models.length)} of {fmtInt(d.paging.total)}
+                    </p>
+                  ) : null}
+                  <Pager label="Model pages" paging={d.paging} />
                 </div>
                 <div className="space-y-3">
                   <CurvePreview

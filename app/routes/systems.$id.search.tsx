@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { data, Form, Link, redirect, useLoaderData, useLocation } from "react-router";
+import { data, Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/systems.$id.search";
 import { requireMember } from "~/lib/auth/guards.server";
 import { addCandidate, addCandidates, candidateSetIds, MAX_CANDIDATES, MAX_PICKS, PicksSchema, SEARCH_PAGE_ROWS, searchForSystem } from "~/lib/projects";
@@ -13,7 +13,7 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
-import { pageHref } from "~/lib/projects/search-view";
+import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -255,7 +255,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             ) : null}
           </Form>
         )}
-        <Pager paging={d.paging} />
+        <Pager label="Result pages" paging={d.paging} />
       </section>
       {d.locked.length ? (
         <section className="panel">
@@ -275,20 +275,6 @@ export default function Search({ actionData }: Route.ComponentProps) {
       ) : null}
       <SizingCaution />
     </div>
-  );
-}
-
-/** Previous / next page links that keep the filters (plain links: they work without JavaScript). */
-function Pager({ paging }: { paging: { page: number; pages: number } }) {
-  const { search } = useLocation();
-  if (paging.pages <= 1) return null;
-  const href = (page: number) => pageHref(search, page);
-  return (
-    <nav aria-label="Result pages" className="mt-3 flex items-center gap-3 text-sm">
-      {paging.page > 1 ? <Link to={href(paging.page - 1)} rel="prev">← Previous</Link> : null}
-      <span className="text-slate-600">Page {paging.page} of {paging.pages}</span>
-      {paging.page < paging.pages ? <Link to={href(paging.page + 1)} rel="next">Next →</Link> : null}
-    </nav>
   );
 }
 

@@ -8,7 +8,7 @@ import { closeDb } from "@db/client.server";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary } from "~/lib/libraries";
 import { createProject, createSystem, SEARCH_PAGE_ROWS } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
-import { pageHref } from "~/lib/projects/search-view";
+import { pageHref } from "~/lib/shared/paging";
 import { call, makeMember, type TestMember } from "./harness";
 import { bigLibraryCsv } from "./big-library";
 import * as searchPage from "~/routes/systems.$id.search";

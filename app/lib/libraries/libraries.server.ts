@@ -208,12 +208,23 @@ export async function curvesOfRevisions(revisionIds: number[], curveSetIds?: num
   return loadCurves(revisionIds, curveSetIds);
 }
 
-async function loadCurves(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
+/** The curve sets of one model of a revision with their points (read afresh: a few rows, no need to keep the whole revision). */
+export function modelCurves(revisionId: number, modelId: number): Promise<LibraryCurveSet[]> {
+  return loadCurves([revisionId], undefined, modelId);
+}
+
+async function loadCurves(revisionIds: number[], curveSetIds?: number[], modelId?: number): Promise<LibraryCurveSet[]> {
   const sets = await db()
     .select({ set: curveSets, model: pumpModels })
     .from(curveSets)
     .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
-    .where(curveSetIds ? and(inArray(curveSets.revisionId, revisionIds), inArray(curveSets.id, curveSetIds)) : inArray(curveSets.revisionId, revisionIds))
+    .where(
+      and(
+        inArray(curveSets.revisionId, revisionIds),
+        curveSetIds ? inArray(curveSets.id, curveSetIds) : undefined,
+        modelId === undefined ? undefined : eq(curveSets.modelId, modelId),
+      ),
+    )
     .orderBy(asc(pumpModels.name), asc(curveSets.speed), desc(curveSets.impellerDiameter));
   if (sets.length === 0) return [];
   const byId = new Map<number, LibraryCurveSet>();

@@ -71,10 +71,3 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     warnings: r.warnings.map((w) => w.message),
   };
 }
-
-/** The link to another page of search results: the current query string (filters) with `page` set; repeated keys kept in order. */
-export function pageHref(search: string, page: number): string {
-  const q = new URLSearchParams(search);
-  q.set("page", String(page));
-  return `?${q}`;
-}

@@ -14,6 +14,7 @@ import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type View
 import { catalogueOf, getSystem } from "./projects.server";
 import { WeightedLru } from "./lru";
 import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
+import { pageOf, type Paging } from "../shared/paging";
 
 
 export type SearchFilters = {
@@ -33,7 +34,7 @@ export const SEARCH_SHOWN = 50;
 export const SEARCH_PAGE_ROWS = 25;
 
 /** Which slice of the judged rows a request returns: page 1.. of `pageSize` rows (out-of-range pages clamp to the nearest). */
-export type SearchPaging = { page: number; pages: number; pageSize: number; total: number };
+export type SearchPaging = Paging;
 
 type OpenRevision = { libraryId: number; name: string; revisionId: number; own?: boolean };
 /** A curve set with the revision it came from (library name read per request: names may change, revisions do not). */
@@ -215,10 +216,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
   kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
   // The page asked for: ranks and "why this rank" run over every row up to its end, so they read the same on every page.
-  const pages = Math.max(1, Math.ceil(kept.length / pageSize));
-  const asked = opts.page === undefined || Number.isNaN(opts.page) ? 1 : Math.trunc(opts.page); // ±Infinity clamp to the ends
-  const page = Math.min(Math.max(1, asked), pages);
-  const first = (page - 1) * pageSize;
+  const { first, ...paging } = pageOf(kept.length, pageSize, opts.page);
   const upTo = kept.slice(0, first + pageSize);
   const notes = upTo.map((k, i) => {
     if (i === 0 || verdictClass(k.verdict) === verdictClass(upTo[i - 1].verdict)) return null;
@@ -241,7 +239,6 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     alsoIn: libraries.filter((l) => l !== (libraryName.get(s.revisionId) ?? "")),
     verdict,
   }));
-  const paging: SearchPaging = { page, pages, pageSize, total: kept.length };
   return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
