@@ -13,6 +13,7 @@ import { can } from "../auth/permissions";
 import type { Viewer } from "../auth/viewer.server";
 import { accessTo } from "./plans";
 import { UploadRejected } from "./uploads.server";
+import { promiseCache } from "../shared/promise-cache";
 
 /** The libraries `viewer` may see, with their access (one query; shared by the listing and the search). */
 async function visibleLibraries(viewer: Viewer) {
@@ -183,24 +184,11 @@ export async function libraryCurves(viewer: Viewer, libraryId: number, revisionI
 
 /**
  * Revisions never change once written, so each app process may keep the curves of recently used
- * revisions (a cache of immutable data: any other process rebuilds the same from the database).
+ * revisions (a cache of immutable data: any other process rebuilds the same from the database): the 24
+ * most recently used, one read per revision at a time, a failed read not kept.
  */
-const REVISION_CACHE_LIMIT = 24;
-const revisionCache = new Map<number, Promise<LibraryCurveSet[]>>();
-
-async function cachedRevision(revisionId: number): Promise<LibraryCurveSet[]> {
-  let p = revisionCache.get(revisionId);
-  if (p) {
-    revisionCache.delete(revisionId); // refresh its place (least recently used goes first)
-    revisionCache.set(revisionId, p);
-    return p;
-  }
-  p = loadCurves([revisionId]);
-  p.catch(() => revisionCache.delete(revisionId));
-  revisionCache.set(revisionId, p);
-  while (revisionCache.size > REVISION_CACHE_LIMIT) revisionCache.delete(revisionCache.keys().next().value!);
-  return p;
-}
+const revisionCache = promiseCache<number, LibraryCurveSet[]>({ max: 24 });
+const cachedRevision = (revisionId: number) => revisionCache.get(revisionId, () => loadCurves([revisionId]));
 
 export async function curvesOfRevisions(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
   if (revisionIds.length === 0) return [];

@@ -16,6 +16,7 @@ import { uploads } from "@db/schema";
 import type { UploadSummary } from "./upload-analysis";
 import { runJob, type AnalysisJob, type AnalysisOutput, type ImportAnalysis } from "./analysis-jobs";
 import type { Lines } from "./import-plan";
+import { promiseCache } from "../shared/promise-cache";
 
 /** Files up to this size are analysed for imports in the calling thread (tens of milliseconds at most). */
 export const OFF_THREAD_BYTES = 256 * 1024;
@@ -35,8 +36,8 @@ export class AnalysisFailed extends Error {
   }
 }
 
-const CACHE_ENTRIES = 16;
-const cache = new Map<string, Promise<UploadSummary>>();
+/** Summaries kept per process: the 16 most recently viewed (a failed analysis is not kept). */
+const cache = promiseCache<string, UploadSummary>({ max: 16 });
 
 let worker: Worker | null = null;
 let seq = 0;
@@ -147,18 +148,8 @@ export async function analyseForImport(
  */
 export function summariseUpload(upload: { id: number; sha256: string }, bytes: (() => Promise<Uint8Array>) | "stored", mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
   const k = `${upload.id}|${upload.sha256}|${mappingJson ?? ""}|${mapping === undefined ? "" : JSON.stringify(mapping)}`;
-  const hit = cache.get(k);
-  if (hit) {
-    cache.delete(k);
-    cache.set(k, hit); // most recently used last
-    return hit;
-  }
   const job = { kind: "summary" as const, mappingJson, mapping };
-  const p = (bytes === "stored" ? inWorker(job, { uploadId: upload.id }) : bytes().then((b) => inWorker(job, b))).then((out) => (out as { summary: UploadSummary }).summary);
-  p.catch(() => cache.delete(k));
-  cache.set(k, p);
-  while (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
-  return p;
+  return cache.get(k, () => (bytes === "stored" ? inWorker(job, { uploadId: upload.id }) : bytes().then((b) => inWorker(job, b))).then((out) => (out as { summary: UploadSummary }).summary));
 }
 
 export const analysisCacheSize = () => cache.size;

@@ -10,7 +10,7 @@ import { curveSets, pumpModels } from "@db/schema";
 import { prepareSearchIndex, type CurveSet as EngineCurveSet, type SearchIndex } from "~/engine";
 import { toPumpPoints } from "./hydraulics";
 import type { LibraryCurveSet } from "../libraries";
-import { WeightedLru } from "./lru";
+import { promiseCache } from "../shared/promise-cache";
 
 /** NaN stands for a missing value (MariaDB never stores NaN). */
 export type RevisionCurves = {
@@ -127,12 +127,16 @@ export async function readRevisionCurves(revisionId: number): Promise<RevisionCu
   return kept;
 }
 
-/** Kept revisions, least recently used dropped first past 300 000 curve sets in all (a revision in use stays reachable from its search). */
-const revisions = new WeightedLru<RevisionCurves>(300_000, 64, (r) => r.count);
+/**
+ * Kept revisions, least recently used dropped first past 300 000 curve sets in all or 64 revisions (a revision in
+ * use stays reachable from its search). 100 000 sets open (10 revisions of 10 000) fit with room to spare; a single
+ * revision of more than 300 000 sets is still read and searched, but not kept: each search reads it again.
+ */
+const revisions = promiseCache<number, RevisionCurves>({ max: 64, maxSize: 300_000, sizeOf: (r) => r.count });
 
 export function revisionCurves(revisionId: number): Promise<RevisionCurves> {
-  return revisions.get(String(revisionId), () => readRevisionCurves(revisionId));
+  return revisions.get(revisionId, () => readRevisionCurves(revisionId));
 }
 
-export const keptRevisions = () => revisions.keys().map(Number);
+export const keptRevisions = () => revisions.keys();
 export const clearKeptRevisions = () => revisions.clear();

@@ -12,7 +12,8 @@ import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdic
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
-import { WeightedLru } from "./lru";
+import { LRUCache } from "lru-cache";
+import { promiseCache } from "../shared/promise-cache";
 import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
 import { pageOf, type Paging } from "../shared/paging";
 
@@ -96,8 +97,12 @@ async function joinPreparedSearch(open: readonly OpenRevision[], filters: Search
   return { index, setOf, keys: new Map() };
 }
 
-/** Prepared searches per (revisions, set filters): immutable inputs, so never stale; least recently used dropped first past 400 000 sets or 8 lists. */
-const preparedCache = new WeightedLru<PreparedSearch>(400_000, 8, (p) => p.index.count);
+/**
+ * Prepared searches per (revisions, set filters): immutable inputs, so never stale; least recently used dropped first
+ * past 400 000 sets or 8 lists (a list of 100 000 sets fits four times). A list of more than 400 000 sets is still
+ * searched, but not kept: each search joins its revisions' indexes again.
+ */
+const preparedCache = promiseCache<string, PreparedSearch>({ max: 8, maxSize: 400_000, sizeOf: (p) => p.index.count });
 
 export function preparedKey(open: readonly OpenRevision[], filters: SearchFilters): string {
   return JSON.stringify([open.map((o) => o.revisionId), filters.type?.toLowerCase() ?? "", filters.size?.toLowerCase() ?? "", filters.speed ?? 0]);
@@ -115,13 +120,10 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
 type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Verdict | null> };
-const verdictCache = new Map<string, SystemWork>();
+const verdictCache = new LRUCache<string, SystemWork>({ max: VERDICT_SYSTEMS_LIMIT });
 function workFor(inputJson: string, input: SystemInput): SystemWork {
   let w = verdictCache.get(inputJson);
-  if (w) verdictCache.delete(inputJson);
-  else w = { evaluation: evaluateSystem(input), verdicts: new Map() }; // throws for inputs the engine cannot evaluate: nothing kept
-  verdictCache.set(inputJson, w);
-  while (verdictCache.size > VERDICT_SYSTEMS_LIMIT) verdictCache.delete(verdictCache.keys().next().value!);
+  if (!w) verdictCache.set(inputJson, (w = { evaluation: evaluateSystem(input), verdicts: new Map() })); // throws for inputs the engine cannot evaluate: nothing kept
   return w;
 }
 
