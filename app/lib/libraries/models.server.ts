@@ -2,11 +2,11 @@
 // with its curves, both through the library's access rules.
 import { asc, desc, eq } from "drizzle-orm";
 import { data } from "react-router";
-import { LRUCache } from "lru-cache";
 import { db } from "@db/client.server";
 import { curveSets, libraryRevisions, pumpModels } from "@db/schema";
 import type { Viewer } from "../auth/viewer.server";
 import { getLibrary, modelCurves } from "./libraries.server";
+import { promiseCache } from "../shared/promise-cache";
 
 /** Models listed per page on a library's page (a catalogue-sized library has thousands). */
 export const MODEL_PAGE_ROWS = 50;
@@ -48,19 +48,15 @@ async function readRevisionModels(revisionId: number): Promise<readonly ListedMo
  * the same from the database). Least recently used dropped first past 32 revisions or 200 000 curve
  * sets in all; a failed read is not kept.
  */
-const revisionModels = new LRUCache<number, readonly ListedModel[]>({
-  max: 32,
-  maxSize: 200_000,
-  sizeCalculation: (list) => list.reduce((n, m) => n + m.curves.length, 0) + 1,
-  fetchMethod: (revisionId) => readRevisionModels(revisionId),
-});
+const revisionModels = promiseCache<number, readonly ListedModel[]>({ max: 32, maxSize: 200_000, sizeOf: (list) => list.reduce((n, m) => n + m.curves.length, 0) });
 
 /** Models of a library's current revision with their curve sets (no points), filtered and sorted. */
 export async function listModels(viewer: Viewer, libraryId: number, f: ModelFilters = {}): Promise<ListedModel[]> {
   const lib = await getLibrary(viewer, libraryId);
   if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
   if (!lib.currentRevisionId) return [];
-  const all = (await revisionModels.fetch(lib.currentRevisionId))!;
+  const revisionId = lib.currentRevisionId;
+  const all = await revisionModels.get(revisionId, () => readRevisionModels(revisionId));
   const has = (a: string, b?: string) => !b || a.toLowerCase().includes(b.toLowerCase());
   let list = all.filter(
     (m) =>
