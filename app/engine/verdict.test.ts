@@ -103,6 +103,19 @@ describe("catalogue limits (the model's published impellers; speed 30–100 % of
     expect(judge(QD, { catalogue: { speedRatio: 0.29 } }).status).toBe("outside-catalogue");
     expect(judge(QD, { catalogue: { speedRatio: 0.3 } }).status).toBe("meets");
   });
+  it("no published diameters: a trim of 20 % is inside, a hair more is outside; an impeller above the published one is outside (MAX_TRIM_FRACTION, common practice)", () => {
+    const at = (t: number, more = {}) => judge(QD, { catalogue: { trimRatio: t, ...more } }).status;
+    expect(at(0.8)).toBe("meets");
+    expect(at(0.8 * (1 - 2e-6))).toBe("outside-catalogue"); // past the 1e-6 round-off allowance
+    expect(at(1)).toBe("meets");
+    expect(at(1.00001)).toBe("outside-catalogue");
+    expect(at(0.5, { diameter: 0.1 })).toBe("outside-catalogue"); // a diameter but no published range: the ratio decides
+    // With the published range known the diameters decide, not the ratio: a 30 % trim inside the range stands.
+    expect(at(0.7, { diameter: 0.14, minDiameter: 0.13, maxDiameter: 0.2 })).toBe("meets");
+    const v = judge(QD, { catalogue: { trimRatio: 0.528 } });
+    expect(inSI(v.reasons[0])).toBe("The impeller trimmed to 52.8 % of the published one is a trim of more than 20 %, and the model publishes no impeller diameters to back it: no published curve backs this pump.");
+    expect(v.rule).toContain("a trim of at most 20 % where none are published");
+  });
   it("outside-catalogue wins over every flow verdict and names the published limit", () => {
     const v = judge(0.5 * QD, { catalogue: { ...cat, diameter: 0.165 } });
     expect(v.status).toBe("outside-catalogue");

@@ -3,9 +3,11 @@
  *
  * Rules, in the order they are applied (the first that holds decides):
  * 1. `outside-catalogue` — the pump as configured is not one the maker publishes: a trimmed
- *    impeller below the smallest or above the largest diameter of the model, or a speed outside
- *    the allowed range (default 30–100 % of the model's rated speed, common practice for
- *    variable-speed centrifugal pumps; the model may state its own range).
+ *    impeller below the smallest or above the largest diameter of the model (where the model
+ *    publishes no diameters: a trim of more than MAX_TRIM_FRACTION = 20 %, or an impeller larger
+ *    than the published curve's), or a speed outside the allowed range (default 30–100 % of the
+ *    model's rated speed, common practice for variable-speed centrifugal pumps; the model may state
+ *    its own range).
  * 2. `no-operating-point` — at some edge of the system band the pump curve and the system
  *    curve do not meet; the reason says why (shut-off head below the system's head at the
  *    curve's first point, or the curve ends while the pump still gives more head than the
@@ -21,6 +23,7 @@
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
 import { fmtPct, qt } from "./quantityText.ts";
+import { MAX_TRIM_FRACTION } from "./affinity.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
 
@@ -66,6 +69,12 @@ export interface CatalogueLimits {
   speedRatio?: number | null;
   /** Allowed speed range as fractions of rated (dimensionless; default 0.3–1.0). */
   speedRange?: { min: number; max: number };
+  /**
+   * Impeller after trim / the published curve's impeller (dimensionless), when trimmed: judged where the
+   * diameters cannot be (no diameter in use, or no published smallest/largest): above 1, or a trim of more
+   * than MAX_TRIM_FRACTION (common practice: affinity.ts), is outside what the maker publishes.
+   */
+  trimRatio?: number | null;
 }
 
 /** What a smaller pump duty would cost in power, for the oversized reasons (W). */
@@ -76,6 +85,8 @@ export interface SavingOption {
   power: number | null;
   /** How, in words (e.g. "speed 87.2 % (2 529 rpm)"). */
   how: string;
+  /** Why the maker's catalogue does not offer this means (catalogueReasons' words), when it does not. */
+  outside?: string[];
 }
 
 export interface VerdictInput {
@@ -129,6 +140,14 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
     if (hi !== null && d > requirePositive("catalogue.maxDiameter", hi) * (1 + eps))
       out.push(`impeller ${diameterText(d)} is above the largest the model publishes (${diameterText(hi)})`);
   }
+  const t = c.trimRatio ?? null;
+  if (t !== null) {
+    requirePositive("catalogue.trimRatio", t);
+    const unpublished = "the model publishes no impeller diameters to back it";
+    if ((d === null || c.minDiameter == null) && t < (1 - MAX_TRIM_FRACTION) * (1 - eps))
+      out.push(`impeller trimmed to ${fmtPct(t)} of the published one is a trim of more than ${fmtPct(MAX_TRIM_FRACTION, 0)}, and ${unpublished}`);
+    if ((d === null || c.maxDiameter == null) && t > 1 + eps) out.push(`impeller at ${fmtPct(t)} of the published one is larger than the published curve's, and ${unpublished}`);
+  }
   const range = c.speedRange ?? DEFAULT_SPEED_RANGE;
   const rMin = requirePositive("catalogue.speedRange.min", range.min), rMax = requirePositive("catalogue.speedRange.max", range.max);
   if (rMin > rMax) throw new EngineInputError("catalogue.speedRange.min", "must not exceed max");
@@ -172,7 +191,7 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const cat = catalogueReasons(input.catalogue);
   if (cat.length) {
     return { status: "outside-catalogue", edge: null,
-      rule: `outside-catalogue: impeller within the model's published diameters and speed within ${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
+      rule: `outside-catalogue: impeller within the model's published diameters (a trim of at most ${fmtPct(MAX_TRIM_FRACTION, 0)} where none are published) and speed within ${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
       reasons: cat.map((r) => `The ${r}: no published curve backs this pump.`) };
   }
 
@@ -201,7 +220,8 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
     const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${fmtPct(ratio)} of the duty, above the tolerance ${tolText}.`];
     const now = input.powerNow ?? null;
     for (const s of input.savings ?? []) {
-      if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
+      if (s.outside?.length) reasons.push(`${cap(s.means)} to the duty (${s.how}) is not an option the maker publishes: the ${s.outside.join("; the ")}.`);
+      else if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
       else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPct((now - s.power) / now, 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,

@@ -4,6 +4,7 @@
 // hydraulics.ts on the server and in the browser.
 import {
   annualEnergy,
+  catalogueReasons,
   judgeCandidate,
   motorEfficiency,
   npshAvailable,
@@ -123,8 +124,12 @@ export function bandPoints(ctx: Ctx): BandPoint[] {
   });
 }
 
-/** Shaft power at the duty by throttling, trim or speed (for the oversized verdict), W. */
-export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }): SavingOption[] {
+/**
+ * Shaft power at the duty by throttling, trim or speed (for the oversized verdict), W. A trim or speed the
+ * model's catalogue does not offer (below its smallest impeller, outside its speed range) says so instead
+ * of a saving: judged with the same limits as the pump itself (`catalogueReasons`).
+ */
+export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, catalogue?: CatalogueLimits): SavingOption[] {
   const rho = ctx.prepared.fluid.density;
   const k = ctx.arrangement === "single" ? 1 : ctx.n;
   const per = ctx.arrangement === "parallel" ? { flow: duty.flow / ctx.n, head: duty.head } : ctx.arrangement === "series" ? { flow: duty.flow, head: duty.head / ctx.n } : duty;
@@ -133,11 +138,14 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }): S
   const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${qt("flow", duty.flow)} flows` }];
   const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
   if (sp.status === "ok" && sp.ratio) {
-    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${(sp.ratio * 100).toFixed(1)} % speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}` });
+    const rated = catalogue?.ratedSpeed ?? null;
+    const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(sp.speed != null && rated != null ? { speed: sp.speed, ratedSpeed: rated } : { speedRatio: sp.ratio }) });
+    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${(sp.ratio * 100).toFixed(1)} % speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}`, outside });
   }
   const tr = trimForDuty(ctx.base, per);
   if (tr.status === "ok" && tr.ratio) {
-    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate` });
+    const outside = catalogueReasons({ diameter: tr.diameter, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: tr.ratio });
+    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate`, outside });
   }
   return out;
 }
@@ -149,7 +157,7 @@ export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number;
   if (first?.status !== "oversized" || !duty) return first;
   const worst = band.reduce((a, b) => ((b.flow ?? Infinity) < (a.flow ?? Infinity) ? b : a));
   const governing = systemHeadFunction(ctx.prepared, bandEdges(ctx.mode).find((e) => e.name === worst.edge)!.which)(duty.flow);
-  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }) });
+  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }, catalogue) });
 }
 
 /**

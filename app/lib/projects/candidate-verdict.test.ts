@@ -92,6 +92,30 @@ describe("the band and the verdict on a system", () => {
     expect(at(0.176 / 0.195).status).not.toBe("outside-catalogue");
   });
 
+  it("an oversized verdict offers a trim only down to the smallest impeller the model publishes (invented curve, Ø200 mm)", () => {
+    // 8 m static and a throttled discharge: the pump runs near 52 m³/h against a 20 m³/h duty (oversized).
+    const sys: SystemInput = { ...defaultSystemInput(), staticLow: 8, staticHigh: 8, duty: { flow: 20 * M3H, head: 10 } };
+    sys.runs = sys.runs.map((r) => ({ ...r, extraK: r.side === "discharge" ? 60 : r.extraK }));
+    const big = {
+      speed: 2900,
+      impellerDiameter: 0.2,
+      points: [[0, 40, null], [10, 39, 0.4], [20, 37, 0.6], [30, 34, 0.7], [40, 30, 0.72], [50, 24, 0.66], [60, 16, 0.5]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null })),
+    };
+    // The trim that would meet the duty, as the trim candidate solves it (the saving aims at the same point).
+    const trimmed = 0.2 * evaluateCandidate(sys, big, { ...DEFAULT_ADJUSTMENT, method: "trim" }).ratio;
+    expect(trimmed).toBeGreaterThan(0.1);
+    expect(trimmed).toBeLessThan(0.12);
+    const reasons = (impellerMin: number) => {
+      const r = evaluateCandidate(sys, big, DEFAULT_ADJUSTMENT, { catalogue: { impellerMin, impellerMax: 0.2, ratedSpeed: 2900 } });
+      expect(r.verdict!.status).toBe("oversized");
+      return inSI(r.verdict!.reasons.find((x) => x.startsWith("Trim"))!);
+    };
+    // Smallest published impeller 1 mm above the trim: not an option, and the reason names both diameters.
+    expect(reasons(trimmed + 0.001)).toMatch(/^Trim to the duty \(impeller trimmed to \d+\.\d % \(Ø\d+ mm\), approximate\) is not an option the maker publishes: the impeller Ø\d+ mm is below the smallest the model publishes \(Ø\d+ mm\)\.$/);
+    // 1 mm below it: the saving is offered with its power.
+    expect(reasons(trimmed - 0.001)).toMatch(/^Trim to the duty \(.*\): \d+\.\d+ kW shaft instead of \d+\.\d+ kW now, saving/);
+  });
+
   it("shut-off head below the system: no operating point, with the reason in numbers", () => {
     const r = evaluateCandidate({ ...chw(), controlHead: 60 }, set, DEFAULT_ADJUSTMENT, { catalogue: cat });
     expect(r.verdict!.status).toBe("no-operating-point");

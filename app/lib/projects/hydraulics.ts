@@ -309,8 +309,9 @@ export function evaluateCandidate(
         speed: set.speed != null && cat.ratedSpeed != null ? set.speed * (adj.method === "speed" ? ratio : 1) : null,
         ratedSpeed: cat.ratedSpeed,
         speedRatio: adj.method === "speed" && (set.speed == null || cat.ratedSpeed == null) ? ratio : null,
+        trimRatio: adj.method === "trim" ? ratio : null,
       }
-    : adj.method === "speed" ? { speedRatio: ratio } : undefined;
+    : adj.method === "speed" ? { speedRatio: ratio } : adj.method === "trim" ? { trimRatio: ratio } : undefined;
   const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue);
   return {
     status: op.status,
