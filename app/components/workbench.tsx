@@ -151,7 +151,16 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Head over the band", (c) => range(c.result?.band, (b) => b.head, (x) => fmtHead(unitSystem, x))],
     ["Efficiency over the band", (c) => range(c.result?.band, (b) => b.efficiency, (x) => fmtPct(x))],
     ["Shaft power over the band", (c) => range(c.result?.band, (b) => b.shaftPower, (x) => fmtPower(unitSystem, x))],
-    ["NPSH margin over the band", (c) => range(c.result?.band, (b) => b.npshMarginRatio, (x) => fmtNum(x, 2))],
+    ["NPSH margin over the band", (c) => {
+      const n = c.result?.npsh;
+      const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
+      return (
+        <span title={n?.rule}>
+          {range(c.result?.band, (b) => b.npshMarginRatio, (x) => fmtNum(x, 2))}
+          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — lowest {fmtNum(n.marginRatio, 2)} at {n.at} ({n.status})</span> : null}
+        </span>
+      );
+    }],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? `${fmtNum(c.result.figures.bepRatio * 100, 0)} % of BEP flow${c.result.figures.inPor === false ? " — outside POR" : ""}` : "—")],
@@ -166,7 +175,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
         <div>
           <div>
             {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}` : "—"}
-            {f.motorLimit != null ? ` · ${yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load` : ""}
+            {f.motorLimit != null ? ` · ${f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load` : ""}
           </div>
           <div className="text-xs text-slate-600">Suggested: {mo.suggestionBasis}.</div>
         </div>

@@ -2,8 +2,9 @@
 import { describe, expect, it } from "vitest";
 import {
   createPumpCurve, fieldCheck, fluidAt, G0, gaugeTdh, headAt, npshAvailable, operatingFigures, TOLERANCE_GRADES,
-  withinGrade, EngineInputError,
+  withinGrade, EngineInputError, maxShaftPower, overloadCheck,
 } from "./index.ts";
+import { inSI } from "./quantityText.ts";
 import { M3H, samplePoints } from "./test/curves.ts";
 
 const water = fluidAt({ kind: "water" }, 20);
@@ -64,6 +65,29 @@ describe("motor and energy", () => {
     expect(f.motor!.nonOverloading).toBe(f.maxPower!.power <= 4600);
     const big = operatingFigures({ curve: etaCurve, flow: 30 * M3H, fluid: water, motor: { rating: 7500 } });
     expect(big.motor!.nonOverloading).toBe(true);
+  });
+  it("power data that stops short of the curve's end: overload not judged (null) unless the known part already exceeds the limit (product rule)", () => {
+    const full = samplePoints();
+    const short = full.map((p, i) => (i === full.length - 1 ? { flow: p.flow, head: p.head } : p)); // the last point's efficiency not published
+    const shortCurve = createPumpCurve({ points: short });
+    const whole = maxShaftPower(etaCurve, 998.2)!;
+    const part = maxShaftPower(shortCurve, 998.2)!;
+    expect(whole.toEnd).toBe(true);
+    expect(whole.upTo).toBe(etaCurve.flowMax);
+    expect(part.toEnd).toBe(false);
+    expect(part.upTo).toBe(short[short.length - 2].flow); // the last flow with an efficiency
+    // A limit above every power known: the whole curve passes, the short one is not judged.
+    const above = Math.max(part.power, whole.power) * 1.01;
+    expect(overloadCheck(whole, above).nonOverloading).toBe(true);
+    expect(overloadCheck(part, above).nonOverloading).toBeNull();
+    expect(inSI(overloadCheck(part, above).warning!)).toMatch(/^power is known only up to \d+(\.\d)? m³\/h, not to the curve's end: overload past it is not judged/);
+    // The flip at the limit itself, for the whole curve: equal passes, a hair below fails.
+    expect(overloadCheck(whole, whole.power).nonOverloading).toBe(true);
+    expect(overloadCheck(whole, whole.power * (1 - 1e-9)).nonOverloading).toBe(false);
+    // The known part already over the limit: can overload, judged without the rest.
+    expect(overloadCheck(part, part.power * 0.99).nonOverloading).toBe(false);
+    expect(operatingFigures({ curve: shortCurve, flow: 30 * M3H, fluid: water, motor: { rating: above } }).motor!.nonOverloading).toBeNull();
+    expect(operatingFigures({ curve: etaCurve, flow: 30 * M3H, fluid: water, motor: { rating: above } }).motor!.nonOverloading).toBe(true);
   });
   it("energy per year = input power × hours; cost = kWh × tariff", () => {
     const f = operatingFigures({ curve: etaCurve, flow: 50 * M3H, fluid: water, energy: { hoursPerYear: 4000, tariffPerKWh: 0.2, motorEfficiency: 0.9 } });

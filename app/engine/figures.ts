@@ -95,30 +95,62 @@ export interface OperatingFigures {
     requiredMargin: number;
     status: "ok" | "low-margin" | "cavitation-risk" | "unknown";
   } | null;
-  /** Largest shaft power on the whole curve for this fluid: W at flow m³/s. */
-  maxPower: { power: number; flow: number } | null;
+  /** Largest shaft power on the curve for this fluid: W at flow m³/s, as far as power is known (see MaxShaftPower). */
+  maxPower: MaxShaftPower | null;
   motor: { rating: number; serviceFactor: number; limit: number; nonOverloading: boolean | null; loadAtDuty: number | null } | null;
   energy: { inputPower: number; annualEnergy: number; annualEnergyKWh: number; annualCost: number } | null;
   warnings: EngineWarning[];
 }
 
+/** The largest shaft power found on a curve, and how far along the curve power is known. */
+export interface MaxShaftPower {
+  /** Largest shaft power, W, at `flow`, m³/s. */
+  power: number;
+  flow: number;
+  /** Largest flow at which the power is known (published power, or head and efficiency), m³/s. */
+  upTo: number;
+  /** True when power is known to the curve's end flow: only then is `power` the largest on the whole curve. */
+  toEnd: boolean;
+}
+
 /**
- * Largest shaft power anywhere on the curve (knots plus 200 samples), W, for a fluid density.
+ * Largest shaft power on the curve (knots plus 200 samples), W, for a fluid density, as far as the
+ * power (or efficiency) data reaches; `toEnd` says whether that is the curve's end.
  * @param curve pump curve (prepared or raw; SI)
  * @param density fluid density, kg/m³
  */
-export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number): { power: number; flow: number } | null {
+export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number): MaxShaftPower | null {
   const c = ensurePumpCurve(curve);
   requirePositive("density", density);
   let best: { power: number; flow: number } | null = null;
+  let upTo = -Infinity;
   const consider = (q: number) => {
     const p = shaftPowerAt(c, q, density);
-    if (p !== null && Number.isFinite(p) && (!best || p > best.power)) best = { power: p, flow: q };
+    if (p === null || !Number.isFinite(p)) return;
+    if (q > upTo) upTo = q;
+    if (!best || p > best.power) best = { power: p, flow: q };
   };
   for (const q of c.head.x) consider(q);
   const N = 200;
   for (let i = 0; i <= N; i++) consider(c.flowMin + ((c.flowMax - c.flowMin) * i) / N);
-  return best;
+  if (!best) return null;
+  const found: { power: number; flow: number } = best;
+  return { power: found.power, flow: found.flow, upTo, toEnd: upTo >= c.flowMax * (1 - 1e-9) };
+}
+
+/**
+ * Whether a motor limit covers the largest power on the curve: false as soon as the power known so far
+ * exceeds it; true only when the power is known to the curve's end; otherwise null (not judged), with a
+ * warning that says how far the power is known.
+ * @param max the curve's largest shaft power (W at m³/s) and its reach, or null when no power is known
+ * @param limit motor rating × service factor, W
+ */
+export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null } {
+  requirePositive("limit", limit);
+  if (!max) return { nonOverloading: null, warning: null };
+  if (max.power > limit) return { nonOverloading: false, warning: `largest power on the curve ${qt("power", max.power)} exceeds motor rating × service factor ${qt("power", limit)}` };
+  if (!max.toEnd) return { nonOverloading: null, warning: `power is known only up to ${qt("flow", max.upTo)}, not to the curve's end: overload past it is not judged (largest power up to there ${qt("power", max.power)}, motor rating × service factor ${qt("power", limit)})` };
+  return { nonOverloading: true, warning: null };
 }
 
 /**
@@ -167,8 +199,8 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     const rating = requirePositive("motor.rating", input.motor.rating);
     const serviceFactor = requirePositive("motor.serviceFactor", input.motor.serviceFactor ?? 1);
     const limit = rating * serviceFactor;
-    const nonOverloading = maxPower ? maxPower.power <= limit : null;
-    if (nonOverloading === false) warnings.push({ code: "motor-overload", message: `largest power on the curve ${qt("power", maxPower!.power)} exceeds motor rating × service factor ${qt("power", limit)}` });
+    const { nonOverloading, warning } = overloadCheck(maxPower, limit);
+    if (warning) warnings.push({ code: nonOverloading === false ? "motor-overload" : "motor-overload-not-judged", message: warning });
     motor = { rating, serviceFactor, limit, nonOverloading, loadAtDuty: shaftPower !== null ? shaftPower / rating : null };
   }
 

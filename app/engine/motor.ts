@@ -77,9 +77,10 @@ export interface MotorSuggestion {
  * Suggests a motor rating from the standard series (non-overloading over the whole curve).
  * @param input.dutyPower shaft power at the duty, W
  * @param input.maxCurvePower largest shaft power anywhere on the curve up to its end, W (null: unknown)
+ * @param input.maxCurvePowerUpTo flow up to which that largest power is known, m³/s, when the power data stops before the curve's end (null or absent: to the end)
  * @param input.serviceFactor service factor (dimensionless, 1.0–1.5; default 1.0)
  */
-export function suggestMotor(input: { dutyPower: number; maxCurvePower: number | null; serviceFactor?: number }): MotorSuggestion {
+export function suggestMotor(input: { dutyPower: number; maxCurvePower: number | null; maxCurvePowerUpTo?: number | null; serviceFactor?: number }): MotorSuggestion {
   if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
   const duty = requireNonNegative("dutyPower", input.dutyPower);
   const max = input.maxCurvePower == null ? null : requireNonNegative("maxCurvePower", input.maxCurvePower);
@@ -87,8 +88,10 @@ export function suggestMotor(input: { dutyPower: number; maxCurvePower: number |
   if (sf < 1 || sf > 1.5) throw new EngineInputError("serviceFactor", "must be between 1.0 and 1.5");
   const covers = Math.max(duty, max ?? 0);
   const rating = nextStandardRating(covers / sf);
+  const upTo = input.maxCurvePowerUpTo == null ? null : requirePositive("maxCurvePowerUpTo", input.maxCurvePowerUpTo);
+  const reach = upTo === null ? "to its end" : `up to ${qt("flow", upTo)} (power known no further: not checked to the curve's end)`;
   const what = max !== null && max > duty
-    ? `largest power on the curve to its end ${qt("power", max)} (duty ${qt("power", duty)})`
+    ? `largest power on the curve ${reach} ${qt("power", max)} (duty ${qt("power", duty)})`
     : `duty power ${qt("power", duty)}${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
   const basis = rating === null
     ? `${what} is above the largest standard rating (${qt("power", 1e6)})`

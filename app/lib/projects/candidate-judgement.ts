@@ -76,6 +76,38 @@ export type BandPoint = {
   reason: string | null;
 };
 
+/** NPSH judged where the pump runs: the design point and each edge of the band; the lowest margin decides. */
+export type NpshJudgement = {
+  status: "ok" | "low-margin" | "cavitation-risk" | "unknown";
+  /** The lowest NPSHa / NPSHr found (dimensionless), and where; null when NPSHr is known nowhere. */
+  marginRatio: number | null;
+  at: string | null;
+  /** The rule with its threshold, in words. */
+  rule: string;
+};
+
+/**
+ * The NPSH status over the design point and the band's edges (common practice: NPSHa below NPSHr is a
+ * cavitation risk; below the wanted margin ratio, a low margin). A pump that runs at least lift pulls
+ * the most flow and needs the most NPSH, so the design point alone can read "ok" while an edge cavitates.
+ * @param design margin ratio at the design operating point (dimensionless), null when unknown
+ * @param band the band's operating points with their margin ratios
+ * @param requiredMargin the wanted NPSHa / NPSHr (dimensionless, > 1)
+ */
+export function npshOverBand(design: number | null, band: readonly BandPoint[], requiredMargin: number): NpshJudgement {
+  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each edge of the band (below 1: cavitation risk)`;
+  let marginRatio: number | null = null;
+  let at: string | null = null;
+  for (const [where, m] of [["design point", design] as const, ...band.map((b) => [b.edge, b.npshMarginRatio] as const)]) {
+    if (m != null && (marginRatio === null || m < marginRatio)) {
+      marginRatio = m;
+      at = where;
+    }
+  }
+  const status = marginRatio === null ? "unknown" : marginRatio < 1 ? "cavitation-risk" : marginRatio < requiredMargin ? "low-margin" : "ok";
+  return { status, marginRatio, at, rule };
+}
+
 export type MotorFigures = {
   suggestedRating: number | null;
   suggestionBasis: string;
@@ -167,6 +199,8 @@ export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number;
 export function motorFigures(o: {
   shaftPower: number | null;
   maxCurvePower: number | null;
+  /** Flow up to which maxCurvePower is known when the curve's power stops short of its end, m³/s (null: to the end). */
+  maxCurvePowerUpTo?: number | null;
   pumps: number;
   userRating: number;
   serviceFactor: number;
@@ -179,7 +213,7 @@ export function motorFigures(o: {
 }): MotorFigures {
   const warnings: string[] = [];
   const perPump = o.shaftPower != null ? o.shaftPower / o.pumps : null;
-  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower, serviceFactor: o.serviceFactor }) : null;
+  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower, maxCurvePowerUpTo: o.maxCurvePowerUpTo, serviceFactor: o.serviceFactor }) : null;
   const rating = o.userRating > 0 ? o.userRating : s?.rating ?? null;
   let efficiency: number | null = null;
   if (rating != null) {

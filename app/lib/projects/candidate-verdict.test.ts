@@ -123,6 +123,39 @@ describe("the band and the verdict on a system", () => {
   });
 });
 
+describe("NPSH where the pump runs: the design point and both band edges (common practice: NPSHa < NPSHr is a cavitation risk)", () => {
+  // An invented curve with NPSHr rising with flow; 10–18 m static lift, so at least lift the pump runs out to about 55 m³/h.
+  const pts = [[0, 30, null, 1.5], [10, 29.5, 0.4, 1.8], [20, 28, 0.6, 2.2], [30, 25.5, 0.7, 3.0], [40, 22, 0.72, 4.2], [50, 17, 0.66, 5.8], [60, 10, 0.5, 8.0]]
+    .map(([q, h, e, n]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: n }));
+  const run = (suctionStaticHead: number) =>
+    evaluateCandidate({ ...defaultSystemInput(), staticLow: 10, staticHigh: 18, suctionStaticHead, duty: { flow: 40 * M3H, head: 18 } }, { points: pts, speed: 2900, impellerDiameter: 0.2 }, DEFAULT_ADJUSTMENT);
+
+  it("the design point reads ok while least lift cavitates: the judgement takes the lowest margin and says where", () => {
+    const r = run(-3);
+    expect(r.figures!.npshStatus).toBe("ok"); // the design point alone (margin about 1.17)
+    const least = r.band.find((b) => b.edge === "least lift, new pipe")!;
+    expect(least.npshMarginRatio!).toBeLessThan(1);
+    expect(r.npsh).toMatchObject({ status: "cavitation-risk", at: "least lift, new pipe" });
+    expect(r.npsh.marginRatio).toBe(least.npshMarginRatio);
+    expect(r.npsh.rule).toContain("at the design point and at each edge of the band");
+    expect(r.warnings.some((w) => w.startsWith("NPSH at least lift, new pipe: margin ratio 0.98, NPSHa below NPSHr: cavitation risk"))).toBe(true);
+  });
+
+  it("the status flips at NPSHa = NPSHr at the worst edge: found by raising the suction head until the lowest margin crosses 1", () => {
+    // Bisection on the suction static head (m) for the lowest band margin = 1 (the margin grows with the suction head).
+    let lo = -3, hi = 0;
+    for (let i = 0; i < 60; i++) {
+      const mid = (lo + hi) / 2;
+      if (run(mid).npsh.marginRatio! < 1) lo = mid;
+      else hi = mid;
+    }
+    expect(run(lo - 1e-3).npsh.status).toBe("cavitation-risk");
+    expect(run(hi + 1e-3).npsh.status).not.toBe("cavitation-risk");
+    expect(run(hi + 1e-3).npsh.marginRatio!).toBeLessThan(defaultSystemInput().npshMargin); // just above 1: a low margin, not ok
+    expect(run(hi + 1e-3).npsh.status).toBe("low-margin");
+  });
+});
+
 describe("the typed duty against the system (3 %, common practice)", () => {
   it("flags a typed head more than 3 % from the system's head at the duty flow, and says which governs", () => {
     const base = chw();
@@ -137,6 +170,22 @@ describe("the typed duty against the system (3 %, common practice)", () => {
 });
 
 describe("motor and energy from the electrical input", () => {
+  it("a curve whose efficiency stops before its end: the motor is not called non-overloading, and the suggestion says how far it was checked (invented curve)", () => {
+    const sys: SystemInput = { ...defaultSystemInput(), staticLow: 14, staticHigh: 18, suctionStaticHead: 2, duty: { flow: 40 * M3H, head: 18 } };
+    const points = (lastEff: number | null) =>
+      [[0, 30, null], [10, 29.5, 0.4], [20, 28, 0.6], [30, 25.5, 0.7], [40, 22, 0.72], [50, 17, 0.66], [60, 10, lastEff]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null }));
+    const run = (lastEff: number | null) => evaluateCandidate(sys, { points: points(lastEff), speed: 2900, impellerDiameter: 0.2 }, DEFAULT_ADJUSTMENT);
+    const short = run(null);
+    expect(short.figures!.nonOverloading).toBeNull();
+    expect(inSI(short.figures!.motor!.suggestionBasis)).toContain("largest power on the curve up to 50.0 m³/h (power known no further: not checked to the curve's end)");
+    expect(short.warnings.map(inSI).some((w) => w.startsWith("power is known only up to 50.0 m³/h, not to the curve's end"))).toBe(true);
+    // Published to the end (η 30 % at 60 m³/h): ρ·g·Q·H/η = 998.2·9.80665·(60/3600)·10/0.30 ≈ 5.44 kW governs (definition), and a 5.5 kW motor covers it.
+    const whole = run(0.3);
+    expect(whole.figures!.maxPower! / 1000).toBeCloseTo(5.44, 2);
+    expect(whole.figures!.motor!.rating).toBe(5500);
+    expect(whole.figures!.nonOverloading).toBe(true);
+  });
+
   it("suggests a standard rating and takes IE3 and the drive's 97 % into the energy", () => {
     const set = si(curve(MEREGATE_150, 2900, 195));
     const r = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed" }, { catalogue: catalogueOf(MEREGATE_150), currency: "GBP" });

@@ -4,6 +4,7 @@
 // recomputes with it while the engineer types.
 import {
   combinePumps,
+  overloadCheck,
   createPumpCurve,
   EngineInputError,
   headAt,
@@ -31,7 +32,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 
 export * from "./system-input";
 export * from "./candidate-input";
-import { bandPoints, GOVERNING_CASE, governingName, motorFigures, verdictOnBand, type BandPoint, type MotorFigures } from "./candidate-judgement";
+import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { qt } from "~/engine/quantityText";
 
 export type RunReport = {
@@ -177,6 +178,8 @@ export type CandidateEvaluation = {
   por: { minFlow: number; maxFlow: number } | null;
   /** Operating points at both edges of the system band (least flow edge decides the verdict). */
   band: BandPoint[];
+  /** NPSH over the design point and the band's edges (the lowest margin decides). */
+  npsh: NpshJudgement;
   /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
   verdict: Verdict | null;
   warnings: string[];
@@ -259,6 +262,7 @@ export function evaluateCandidate(
     const motor = motorFigures({
       shaftPower: f.shaftPower != null ? f.shaftPower * k : null,
       maxCurvePower: f.maxPower?.power ?? null,
+      maxCurvePowerUpTo: f.maxPower && !f.maxPower.toEnd ? f.maxPower.upTo : null,
       pumps: k,
       userRating: adj.motorRating,
       serviceFactor: adj.serviceFactor,
@@ -271,8 +275,9 @@ export function evaluateCandidate(
     });
     warnings.push(...motor.warnings);
     const limit = motor.rating != null ? motor.rating * adj.serviceFactor : null;
-    const nonOverloading = limit != null && f.maxPower ? f.maxPower.power <= limit : null;
-    if (nonOverloading === false) warnings.push(`largest power on the curve ${qt("power", f.maxPower!.power)} exceeds motor rating × service factor ${qt("power", limit!)}`);
+    const overload = limit != null ? overloadCheck(f.maxPower, limit) : null;
+    const nonOverloading = overload?.nonOverloading ?? null;
+    if (overload?.warning) warnings.push(overload.warning);
     figures = {
       efficiency: f.efficiency,
       hydraulicPower: f.hydraulicPower * k,
@@ -300,6 +305,9 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead } };
   const band = bandPoints(ctx);
+  const npsh = npshOverBand(figures?.npshMarginRatio ?? null, band, input.npshMargin);
+  if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
+    warnings.push(`NPSH at ${npsh.at}: margin ratio ${npsh.marginRatio!.toFixed(2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat
     ? {
@@ -326,6 +334,7 @@ export function evaluateCandidate(
     figures,
     por,
     band,
+    npsh,
     verdict,
     warnings: [...new Set(warnings)],
   };

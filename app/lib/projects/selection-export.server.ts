@@ -41,6 +41,10 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("npsh_available", fig?.npshAvailable, "m");
   add("npsh_required", fig?.npshRequired, "m");
   add("npsh_margin_ratio", fig?.npshMarginRatio, "1");
+  // Over the design point and the band's edges (selections saved before this was judged have none).
+  add("npsh_status_over_band", f.result.npsh?.status ?? null, "");
+  add("npsh_lowest_margin_ratio", f.result.npsh?.marginRatio ?? null, "1");
+  add("npsh_lowest_at", f.result.npsh?.at ?? null, "");
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
   add("motor_rating", fig?.motor?.rating ?? null, "W");
