@@ -8,7 +8,8 @@ import { eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, workspaces } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { analyseStored, createLibrary, deleteLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
+import { createLibrary, deleteLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { createProject, createSystem, selectCandidate } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { call, makeMember, makeWorkspace, type TestMember } from "./harness";
@@ -64,9 +65,7 @@ beforeAll(async () => {
   // Model names of this run (the workspace id): search merges identical curves across libraries into one row, and other
   // shared copies of long-si.csv (libraries.server.test.ts, earlier runs) would otherwise hold the row instead of this library.
   const csv = readFileSync("fixtures/csv/long-si.csv", "utf8").replaceAll("Kestrel", `Gate ${dist.id}`);
-  const uploadId = await storeUpload(dv, libraryId, new File([csv], "long-si.csv", { type: "text/csv" }));
-  const { text, lib } = await getUpload(dv, libraryId, uploadId);
-  await importUpload(dv, libraryId, uploadId, analyseStored(text, lib).mapping, "gate sweep");
+  await importCsvText(dv, libraryId, csv, "long-si.csv", "gate sweep");
   await updateLibrary(dv, libraryId, { name: `Gate sweep ${dist.id}`, description, visibility: "shared" });
   const sets = await db()
     .select({ id: curveSets.id })
