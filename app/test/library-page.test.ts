@@ -58,4 +58,11 @@ describe("library page: point tables", () => {
       expect(text(caption)).toBe(`Points of Model X ${labels[i]}`);
     });
   });
+
+  it("the chart's table view of a library's curves (no system curve) claims no operating point", () => {
+    const html = render();
+    expect(html).not.toContain("does not meet the system curve");
+    expect(html).not.toContain("operating point");
+    expect(count(html, labels[0])).toBeGreaterThan(0); // the curve is still named: legend, table view, point table
+  });
 });
