@@ -246,8 +246,15 @@ export default function LibraryPage() {
                     <summary className="cursor-pointer text-sm font-semibold">Point tables of {d.modelName}</summary>
                     {d.curves.map((c) => {
                       const label = renderUnits(curveLabel(c.speed, c.impellerDiameter), d.unitSystem);
+                      // The caption shows the curve's label and names the table for screen readers (with the model, unseen).
+                      const caption = (
+                        <>
+                          <span className="sr-only">Points of {d.modelName} </span>
+                          {label}
+                        </>
+                      );
                       return (
-                        <ListTable key={c.id} head={["Flow", "Head", "Efficiency", "Shaft power", "NPSHr"]} small label={`Points of ${d.modelName} ${label}`} caption={label}>
+                        <ListTable key={c.id} head={["Flow", "Head", "Efficiency", "Shaft power", "NPSHr"]} small caption={caption}>
                           {c.points.map((p, i) => (
                             <tr key={i} className="border-t border-slate-100">
                               <td>{fmtFlow(d.unitSystem, p.flow)}</td>

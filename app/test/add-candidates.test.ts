@@ -7,7 +7,8 @@ import { afterAll, beforeAll, beforeEach, describe, expect, test } from "vitest"
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, curveSets, libraryRevisions, workspaces } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
+import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { createProject, createSystem } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { forgetTokens } from "~/lib/auth/token-cache.server";
@@ -21,9 +22,7 @@ async function library(v: Viewer, name: string, visibility: "private" | "workspa
   const libraryId = await createLibrary(v, { name, description: "" });
   // Model names of our own: search merges identical curves across libraries, and the plan-gate sweep must never find ours.
   const csv = readFileSync("fixtures/csv/long-si.csv", "utf8").replaceAll("Kestrel", `${name} ${Date.now().toString(36)}`);
-  const uploadId = await storeUpload(v, libraryId, new File([csv], "long-si.csv", { type: "text/csv" }));
-  const { text, lib } = await getUpload(v, libraryId, uploadId);
-  await importUpload(v, libraryId, uploadId, analyseStored(text, lib).mapping, "add-many test");
+  await importCsvText(v, libraryId, csv, "long-si.csv", "add-many test");
   if (visibility !== "private") await updateLibrary(v, libraryId, { name, description: "", visibility });
   const rows = await db().select({ id: curveSets.id }).from(curveSets).innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId)).where(eq(libraryRevisions.libraryId, libraryId));
   return rows.map((r) => r.id);

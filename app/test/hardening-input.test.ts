@@ -7,7 +7,8 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { stripeEvents, systems, uploads } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload } from "~/lib/libraries";
+import { createLibrary, storeUpload } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { PENDING_UPLOAD_TTL_HOURS } from "~/lib/libraries/uploads.server";
 import { createProject, createSystem } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
@@ -86,9 +87,7 @@ test("uploads never imported are swept after a day; imported ones and fresh ones
   const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
   const lib = await createLibrary(viewer, { name: "Sweep", description: "" });
   const csv = readFileSync("fixtures/csv/long-si.csv", "utf8");
-  const imported = await storeUpload(viewer, lib, new File([csv], "a.csv", { type: "text/csv" }));
-  const { text, lib: l } = await getUpload(viewer, lib, imported);
-  await importUpload(viewer, lib, imported, analyseStored(text, l).mapping);
+  const imported = await importCsvText(viewer, lib, csv, "a.csv");
   const stale = await storeUpload(viewer, lib, new File([csv], "b.csv", { type: "text/csv" }));
   const old = new Date(Date.now() - (PENDING_UPLOAD_TTL_HOURS + 1) * 3_600_000);
   await db().update(uploads).set({ createdAt: old }).where(eq(uploads.libraryId, lib)); // both look old

@@ -8,7 +8,8 @@ import { eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, curveSets, libraries, libraryRevisions, workspaces } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { analyseStored, createLibrary, deleteLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
+import { createLibrary, deleteLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { createProject, createSystem, selectCandidate } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { call, makeMember, makeWorkspace, type TestMember } from "./harness";
@@ -61,9 +62,10 @@ beforeAll(async () => {
   const dv = viewerFor(d, "network", dist);
   const description = "Gate sweep range — description may be read by anyone";
   const libraryId = await createLibrary(dv, { name: `Gate sweep ${dist.id}`, description });
-  const uploadId = await storeUpload(dv, libraryId, new File([readFileSync("fixtures/csv/long-si.csv")], "long-si.csv", { type: "text/csv" }));
-  const { text, lib } = await getUpload(dv, libraryId, uploadId);
-  await importUpload(dv, libraryId, uploadId, analyseStored(text, lib).mapping, "gate sweep");
+  // Model names of this run (the workspace id): search merges identical curves across libraries into one row, and other
+  // shared copies of long-si.csv (libraries.server.test.ts, earlier runs) would otherwise hold the row instead of this library.
+  const csv = readFileSync("fixtures/csv/long-si.csv", "utf8").replaceAll("Kestrel", `Gate ${dist.id}`);
+  await importCsvText(dv, libraryId, csv, "long-si.csv", "gate sweep");
   await updateLibrary(dv, libraryId, { name: `Gate sweep ${dist.id}`, description, visibility: "shared" });
   const sets = await db()
     .select({ id: curveSets.id })
@@ -79,7 +81,7 @@ beforeAll(async () => {
   const engineer = await makeMember("engineer", firm.id);
   const ev = viewerFor(engineer, "network", firm);
   const projectId = await createProject(ev, { name: "Gate sweep project", site: "", description: "" });
-  // Duty on the Kestrel KR-3 2900 rpm / 165 mm curve of long-si.csv (17.14 m³/h, 31.52 m), a little below it.
+  // Duty on the (renamed) Kestrel KR-3 2900 rpm / 165 mm curve of long-si.csv (17.14 m³/h, 31.52 m), a little below it.
   const systemId = await createSystem(ev, projectId, "Gate sweep system", { ...defaultSystemInput(), duty: { flow: 17.14 * M3H, head: 28 } });
   const [earlierSetId, freshSetId] = [...sharedSets];
   const add = await call(searchPage.action as never, { path: `/systems/${systemId}/search`, cookie: engineer.cookie, params: { id: String(systemId) }, form: { curveSetId: String(earlierSetId), method: "none" } });
@@ -93,8 +95,8 @@ beforeAll(async () => {
   const { token } = await createApiToken({ userId: engineer.userId, workspaceId: firm.id, name: "gate", scope: "read" });
   c = { distributor: dv, engineer, token, libraryId, description, sharedSets, systemId, freshSetId, earlierSetId, selectionId, frozenPoints };
 });
-// The shared library goes when the sweep ends (archived: a selection uses it), so a second run on the
-// same database does not find this run's identical curves shared twice.
+// The shared library goes when the sweep ends (archived: a selection uses it), so the database does not keep
+// one more shared library for each run.
 afterAll(async () => {
   if (c) await deleteLibrary(c.distributor, c.libraryId);
   await closeDb();

@@ -5,7 +5,8 @@
 // 1..n across pages) and URLSearchParams' own encoding.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary } from "~/lib/libraries";
+import { createLibrary, updateLibrary } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { createProject, createSystem, SEARCH_PAGE_ROWS } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { pageHref } from "~/lib/shared/paging";
@@ -27,9 +28,7 @@ beforeAll(async () => {
   const dist = await makeMember("distributor", engineer.workspaceId);
   const dv = { userId: dist.userId, workspace: { id: engineer.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "distributor" as const };
   const libId = await createLibrary(dv, { name: "Paged range", description: "" });
-  const uploadId = await storeUpload(dv, libId, new File([bigLibraryCsv(100, 7000)], "paged.csv", { type: "text/csv" }));
-  const { text, lib } = await getUpload(dv, libId, uploadId);
-  await importUpload(dv, libId, uploadId, analyseStored(text, lib).mapping);
+  await importCsvText(dv, libId, bigLibraryCsv(100, 7000), "paged.csv");
   await updateLibrary(dv, libId, { name: "Paged range", description: "", visibility: "workspace" });
   const ev = { ...dv, userId: engineer.userId, role: "engineer" as const };
   // A duty on many of the invented curves (40 m³/h at 35 m with 30–32 m static, as the bench uses).

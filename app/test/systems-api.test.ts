@@ -6,7 +6,7 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "~/lib/libraries";
+import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, systemWorkbench } from "~/lib/projects";
 import { searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
@@ -16,6 +16,7 @@ import { call, makeMember, type TestMember } from "./harness";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
+import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 
 afterAll(() => closeDb());
 
@@ -32,12 +33,9 @@ const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, st
 beforeAll(async () => {
   m = await makeMember("admin");
   other = await makeMember("admin");
-  v = { userId: m.userId, workspace: { id: m.workspaceId, name: "A", slug: "a", plan: "free" }, role: "admin" };
+  v = await viewerOfUser(m.userId);
   const libId = await createLibrary(v, { name: LIB, description: "" });
-  const text = readFileSync("fixtures/demo/tallowmere.csv", "utf8"); // invented demo curves (fixtures/demo)
-  const uploadId = await storeUpload(v, libId, new File([text], "t.csv", { type: "text/csv" }));
-  const u = await getUpload(v, libId, uploadId);
-  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+  await importCsvText(v, libId, readFileSync("fixtures/demo/tallowmere.csv", "utf8")); // invented demo curves (fixtures/demo)
   await updateLibrary(v, libId, { name: LIB, description: "", visibility: "workspace" });
   const p = await createProject(v, { name: "API", site: "", description: "" });
   systemId = await createSystem(v, p, "Booster", booster());

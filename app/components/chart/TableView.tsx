@@ -3,6 +3,7 @@
  * every curve at about eight flows over the axis, then the duty, operating points and BEPs.
  * Shown under "Table view" on screen and always in print.
  */
+import type { ReactNode } from "react";
 import { interpolateAt } from "./curves.ts";
 import { formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type DisplayPump } from "./model.ts";
@@ -23,6 +24,57 @@ export function ChartTables({ model }: { model: ChartModel }) {
   const th = "border-b border-slate-300 px-2 py-1 text-right font-semibold text-slate-700";
   const td = "border-b border-slate-100 px-2 py-0.5 text-right tabular-nums";
   const pumpKinds = (p: DisplayPump) => kinds.filter((k) => pumpSeries(p, k).length > 0);
+  // The marked points: the duty, each pump's operating point (or that it misses the system curve: only where there
+  // is one, as the legend's opSummary), its BEP. No table when there are none (a library's curves alone).
+  const pointRows: ReactNode[] = [];
+  if (model.duty)
+    pointRows.push(
+      <tr key="duty">
+        <th className={td + " text-left font-semibold"} scope="row">Duty point (required)</th>
+        <td className={td}>{formatValue(model.duty.flow)}</td>
+        <td className={td}>{formatValue(model.duty.head)}</td>
+        <td className={td}>—</td>
+        <td className={td}>—</td>
+        <td className={td}>—</td>
+      </tr>,
+    );
+  for (const p of model.pumps) {
+    const op = p.operating;
+    if (op || model.system)
+      pointRows.push(
+        <tr key={`${p.id}-op`}>
+          <th className={td + " text-left font-semibold"} scope="row">
+            {p.badge}. {p.label} — operating point
+          </th>
+          {op ? (
+            <>
+              <td className={td}>{formatValue(op.flow)}</td>
+              <td className={td}>{formatValue(op.head)}</td>
+              <td className={td}>{formatValue(op.efficiency ?? interpolateAt(p.efficiency, op.flow))}</td>
+              <td className={td}>{formatValue(op.power ?? interpolateAt(p.power, op.flow))}</td>
+              <td className={td}>{formatValue(op.npshr ?? interpolateAt(p.npshr, op.flow))}</td>
+            </>
+          ) : (
+            <td className={td + " text-left"} colSpan={5}>
+              does not meet the system curve
+            </td>
+          )}
+        </tr>,
+      );
+    if (p.bep)
+      pointRows.push(
+        <tr key={`${p.id}-bep`}>
+          <th className={td + " text-left"} scope="row">
+            {p.badge}. {p.label} — BEP
+          </th>
+          <td className={td}>{formatValue(p.bep.flow)}</td>
+          <td className={td}>{formatValue(p.bep.head)}</td>
+          <td className={td}>{formatValue(interpolateAt(p.efficiency, p.bep.flow))}</td>
+          <td className={td}>{formatValue(interpolateAt(p.power, p.bep.flow))}</td>
+          <td className={td}>{formatValue(interpolateAt(p.npshr, p.bep.flow))}</td>
+        </tr>,
+      );
+  }
 
   return (
     <div className="mt-2 space-y-3 overflow-x-auto" data-tables="">
@@ -81,69 +133,22 @@ export function ChartTables({ model }: { model: ChartModel }) {
         </tbody>
       </table>
 
-      <table className="min-w-full border-collapse text-xs" data-table="points">
-        <caption className="py-1 text-left text-sm font-semibold text-slate-700">Duty, operating points and BEP</caption>
-        <thead>
-          <tr>
-            <th className={th + " text-left"} scope="col">Point</th>
-            <th className={th} scope="col">Flow ({u.flow.label})</th>
-            <th className={th} scope="col">Head ({u.head.label})</th>
-            <th className={th} scope="col">Eff. (%)</th>
-            <th className={th} scope="col">Power ({u.power.label})</th>
-            <th className={th} scope="col">NPSHr ({u.npsh.label})</th>
-          </tr>
-        </thead>
-        <tbody>
-          {model.duty && (
+      {pointRows.length > 0 && (
+        <table className="min-w-full border-collapse text-xs" data-table="points">
+          <caption className="py-1 text-left text-sm font-semibold text-slate-700">Duty, operating points and BEP</caption>
+          <thead>
             <tr>
-              <th className={td + " text-left font-semibold"} scope="row">Duty point (required)</th>
-              <td className={td}>{formatValue(model.duty.flow)}</td>
-              <td className={td}>{formatValue(model.duty.head)}</td>
-              <td className={td}>—</td>
-              <td className={td}>—</td>
-              <td className={td}>—</td>
+              <th className={th + " text-left"} scope="col">Point</th>
+              <th className={th} scope="col">Flow ({u.flow.label})</th>
+              <th className={th} scope="col">Head ({u.head.label})</th>
+              <th className={th} scope="col">Eff. (%)</th>
+              <th className={th} scope="col">Power ({u.power.label})</th>
+              <th className={th} scope="col">NPSHr ({u.npsh.label})</th>
             </tr>
-          )}
-          {model.pumps.map((p) => {
-            const op = p.operating;
-            const rows = [
-              <tr key={`${p.id}-op`}>
-                <th className={td + " text-left font-semibold"} scope="row">
-                  {p.badge}. {p.label} — operating point
-                </th>
-                {op ? (
-                  <>
-                    <td className={td}>{formatValue(op.flow)}</td>
-                    <td className={td}>{formatValue(op.head)}</td>
-                    <td className={td}>{formatValue(op.efficiency ?? interpolateAt(p.efficiency, op.flow))}</td>
-                    <td className={td}>{formatValue(op.power ?? interpolateAt(p.power, op.flow))}</td>
-                    <td className={td}>{formatValue(op.npshr ?? interpolateAt(p.npshr, op.flow))}</td>
-                  </>
-                ) : (
-                  <td className={td + " text-left"} colSpan={5}>
-                    does not meet the system curve
-                  </td>
-                )}
-              </tr>,
-            ];
-            if (p.bep) {
-              rows.push(
-                <tr key={`${p.id}-bep`}>
-                  <th className={td + " text-left"} scope="row">
-                    {p.badge}. {p.label} — BEP
-                  </th>
-                  <td className={td}>{formatValue(p.bep.flow)}</td>
-                  <td className={td}>{formatValue(p.bep.head)}</td>
-                  <td className={td}>{formatValue(interpolateAt(p.efficiency, p.bep.flow))}</td>
-                  <td className={td}>{formatValue(interpolateAt(p.power, p.bep.flow))}</td>
-                  <td className={td}>{formatValue(interpolateAt(p.npshr, p.bep.flow))}</td>
-                </tr>,
-              );
-            }
-            return rows;
-          })}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>{pointRows}</tbody>
+        </table>
+      )}
     </div>
   );
 }

@@ -289,6 +289,20 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(usPoints).toContain("53.6"); // 40 kW / 745.6999 W = 53.64 hp (NIST SP 811)
   });
 
+  it("table view: an operating-point row only where there is a system curve to meet (a library's curves alone have none)", () => {
+    // No system: nothing to meet, so no "operating point" row and no "does not meet the system curve" (the legend says nothing
+    // either); no duty and no BEP leave no marked point, so no points table.
+    const alone = render(base());
+    expect(alone).not.toContain("operating point");
+    expect(alone).not.toContain("does not meet");
+    expect(alone).not.toContain('data-table="points"');
+    expect(section(render(base({ pumps: [linePump({ bep: { flow: 0.1, head: 30 } })] })), 'data-table="points"', "table")).toContain("Line pump — BEP");
+    // With a system curve the pump does not reach: the row stays and says so (product rule, as the legend's opSummary).
+    const missed = section(render(base({ system: { design: [{ flow: 0, y: 50 }, { flow: 0.2, y: 60 }] } })), 'data-table="points"', "table");
+    expect(missed).toContain("Line pump — operating point");
+    expect(missed).toContain("does not meet the system curve");
+  });
+
   it("table view samples the curves at ~10 flows with interpolated values (by construction)", () => {
     // Line pump: 40 m at 0 → 20 m at 720 m³/h; flowMax 0.2 m³/s = 720 m³/h; ticks every 100 m³/h.
     const html = render(base({ flowMax: 0.2 }));

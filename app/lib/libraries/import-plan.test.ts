@@ -8,7 +8,7 @@ import { packedOf } from "../import/packed";
 import { fixture } from "../import/test-helpers";
 import { planImport, pointLines, setLines, writable } from "./import-plan";
 import { runJob, type ImportAnalysis } from "./analysis-jobs";
-import { POINTS_PER_PIECE, pointsText, setsText, withIds } from "./import-write.server";
+import { linesHere, POINTS_PER_PIECE, withIds } from "./import-write.server";
 
 const plain = (p: ReturnType<typeof planImport>) =>
   p && { ...p, setModel: [...p.setModel], setSpeed: [...p.setSpeed], setImpeller: [...p.setImpeller], starts: [...p.starts], values: [...p.values] };
@@ -62,10 +62,10 @@ describe("import plan from the fast path's arrays and from the full path's objec
   });
 });
 
-describe("the LOAD DATA text from the worker's lines", () => {
+describe("the LOAD DATA text: the worker's lines and the writer's own", () => {
   const join = (pieces: Iterable<string | Uint8Array>) => [...pieces].map((p) => (typeof p === "string" ? p : Buffer.from(p).toString("latin1"))).join("");
 
-  it("is byte for byte the text the writer formats itself, with the same progress", () => {
+  it("the writer's lines made a piece at a time are byte for byte the worker's lines with the ids in front, with the same progress", () => {
     // absent values (\\N), 3-point curves, ids of different lengths, pieces cut between curve sets
     const rows = (model: string, n: number, eff: boolean) => Array.from({ length: n }, (_, i) => `${model},2900,200,${1.5 * i},${40 - i / 3},${eff ? 40 + i : ""},${eff ? "" : 2 + i},`);
     const text = [BIG_HEADER, ...rows("A-1", 3, true), ...rows("A-2", 7, false), ...makeBigCsv({ points: 12_000 }).split("\n").slice(1)].join("\n");
@@ -74,8 +74,8 @@ describe("the LOAD DATA text from the worker's lines", () => {
     const lines = pointLines(plan);
     expect(lines.ends.length).toBe(plan.points + 1); // source: one line per point (import-plan.ts)
     const p1: number[] = [], p2: number[] = [];
-    const expected = join(pointsText(plan, ids, (n) => p1.push(n)));
-    expect(join(withIds(lines, plan.starts, (i) => String(ids[i]), POINTS_PER_PIECE, (n: number) => p2.push(n)))).toBe(expected); // source: pointsText, the writer's own formatting
+    const expected = join(withIds(lines, plan.starts, (i) => String(ids[i]), POINTS_PER_PIECE, (n: number) => p1.push(n)));
+    expect(join(linesHere(plan, "points", (i) => String(ids[i]), POINTS_PER_PIECE, (n: number) => p2.push(n)))).toBe(expected); // source: the worker's path (whole lines, ids in front)
     expect(expected.split("\n")[0]).toBe("7\t0\t0\t40\t0.4\t\\N\t\\N"); // source: construction (first row of A-1 in SI: 0 m³/s, 40 m, 40 % → 0.4; power and NPSHr blank)
     expect(p2).toEqual(p1); // source: same pieces, same progress counts
     expect(p2.at(-1)).toBe(plan.points); // source: the last progress count is every point
@@ -84,8 +84,9 @@ describe("the LOAD DATA text from the worker's lines", () => {
     const modelIds = new Map(plan.models.map((m, i) => [m.name, i % 2 ? 9 : 10_000_000 + i]));
     const sets = setLines(plan);
     const identity = Int32Array.from({ length: plan.setModel.length + 1 }, (_, i) => i);
-    const setsExpected = join(setsText(plan, modelIds, 42));
-    expect(join(withIds(sets, identity, (i) => `${modelIds.get(plan.models[plan.setModel[i]].name)}\t42`, 2000))).toBe(setsExpected); // source: setsText, the writer's own formatting
+    const setPrefix = (i: number) => `${modelIds.get(plan.models[plan.setModel[i]].name)}\t42`;
+    const setsExpected = join(withIds(sets, identity, setPrefix, 2000));
+    for (const perPiece of [2000, 7]) expect(join(linesHere(plan, "sets", setPrefix, perPiece)), `pieces of ${perPiece}`).toBe(setsExpected); // source: the worker's path
     expect(setsExpected.split("\n")[0]).toBe(`10000000\t42\t2900\t0.2\t0\t${3 * SI_FACTOR.flow["m3/h"]!}\t40\t${40 - 2 / 3}\t3`); // source: construction (A-1: 3 points, flow 0–3 m³/h times the SI factor 1/3600 as the importer applies it, head 40 → 40 − 2/3 m, Ø200 mm)
   });
 });

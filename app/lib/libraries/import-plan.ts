@@ -34,8 +34,8 @@ export type ImportPlan = {
   /**
    * The LOAD DATA lines of the curve sets and of the points (without the ids in front, see Lines),
    * when the analysis worker makes them: after it has sent the plan, so while the import's
-   * transaction writes what comes before them; null when it could not. Absent: the writer formats
-   * them from the arrays itself.
+   * transaction writes what comes before them; null when it could not. Absent: the writer makes
+   * the same lines itself, a piece at a time (import-write.server.ts linesHere).
    */
   lines?: { sets: Promise<Lines | null>; points: Promise<Lines | null> };
 };
@@ -117,6 +117,17 @@ export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
       for (let f = 0; f < POINT_WIDTH; f++) fields[o + 1 + f] = v[at + f];
     }
   return writeLines(fields, 6);
+}
+
+/** Curve sets g to h − 1 of a plan as a plan of their own (starts from 0; the arrays are views, not copies): their lines alone. */
+export function planPart(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">, g: number, h: number): Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller"> {
+  const a = plan.starts[g];
+  return {
+    starts: plan.starts.slice(g, h + 1).map((k) => k - a),
+    values: plan.values.subarray(a * POINT_WIDTH, plan.starts[h] * POINT_WIDTH),
+    setSpeed: plan.setSpeed.subarray(g, h),
+    setImpeller: plan.setImpeller.subarray(g, h),
+  };
 }
 
 /** The typed arrays of a plan (to transfer between threads). */

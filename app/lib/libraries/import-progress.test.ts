@@ -10,7 +10,7 @@ import { createLibrary, prepareImport, storeUpload, analyseStored, getUpload, ty
 import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 import * as libraryPage from "~/routes/libraries.$id";
 import { call, makeMember, type TestMember } from "~/test/harness";
-import { pointsText, POINTS_PER_PIECE } from "./import-write.server";
+import { linesHere, POINTS_PER_PIECE } from "./import-write.server";
 import { importOf, progressWriter, recentImports, startImportRow, STALE_AFTER_MS } from "./import-progress.server";
 import { runImport, startImport } from "./import-run.server";
 
@@ -37,7 +37,7 @@ async function prepared(points: number) {
 test("points are streamed in pieces and each piece reports the count so far (12 000 points: 5 000, 10 000, 12 000)", async () => {
   const { plan } = await prepared(12_000);
   const seen: number[] = [];
-  const text = [...pointsText(plan, Array.from({ length: plan.setModel.length }, (_, i) => i + 1), (n) => seen.push(n))].join("");
+  const text = Buffer.concat([...linesHere(plan, "points", (i) => String(i + 1), POINTS_PER_PIECE, (n) => seen.push(n))]).toString("latin1");
   expect(POINTS_PER_PIECE).toBe(5000);
   expect(seen).toEqual([5000, 10_000, 12_000]);
   expect(text.split("\n").length - 1).toBe(12_000);

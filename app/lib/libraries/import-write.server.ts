@@ -12,7 +12,7 @@ import { withTransaction } from "@db/client.server";
 import { libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
 import { bulkLoad, bulkText, withoutKeyChecks } from "./bulk-load.server";
-import { setFigures, type ImportPlan, type Lines } from "./import-plan";
+import { planPart, pointLines, setLines, type ImportPlan, type Lines } from "./import-plan";
 import type { ProgressSink } from "./import-progress.server";
 
 export type ImportResult = { revisionId: number; number: number; models: number; curves: number; points: number; skipped: number };
@@ -66,18 +66,20 @@ export async function writeImport(
       await bulkLoad(conn, "pump_models", ["revision_id", "name", "type", "nominal_size", "rated_speed", "impeller_min", "impeller_max", "notes"], bulkText(modelRows), modelRows.length);
       const modelIds = new Map((await tx.select({ id: pumpModels.id, name: pumpModels.name }).from(pumpModels).where(eq(pumpModels.revisionId, revisionId))).map((r) => [r.name, r.id]));
       for (const m of plan.models) if (!modelIds.has(m.name.slice(0, 160))) throw new Error(`import: model ${m.name} was not written`);
-      // the worker's lines (made while the transaction got here), else formatted here
-      const setLines = usable(plan.lines && (await plan.lines.sets), curves);
-      const setText = setLines
-        ? () => withIds(setLines, Int32Array.from({ length: curves + 1 }, (_, i) => i), (i) => `${modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))}\t${revisionId}`, SETS_PER_PIECE)
-        : () => setsText(plan, modelIds, revisionId);
+      // the worker's lines (made while the transaction got here), else the same lines made here
+      const workerSets = usable(plan.lines && (await plan.lines.sets), curves);
+      const setPrefix = (i: number) => `${modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))}\t${revisionId}`;
+      const setText = workerSets ? () => withIds(workerSets, oneEach(curves), setPrefix, SETS_PER_PIECE) : () => linesHere(plan, "sets", setPrefix, SETS_PER_PIECE);
       await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], setText, curves);
       // Curve sets come back in insertion order (ascending id within this revision).
       // (plain rows as arrays: 10 000 ids without an object each)
       const setIds = ((await conn.query({ sql: "SELECT id FROM curve_sets WHERE revision_id = ? ORDER BY id", rowsAsArray: true }, [revisionId])) as [number][]).map((r) => r[0]);
       if (setIds.length !== curves) throw new Error(`import: expected ${curves} curve sets, found ${setIds.length}`);
-      const lines = usable(plan.lines && (await plan.lines.points), plan.points);
-      const points = lines ? () => withIds(lines, plan.starts, (i) => String(setIds[i]), POINTS_PER_PIECE, hooks.progress) : () => pointsText(plan, setIds, hooks.progress);
+      const workerPoints = usable(plan.lines && (await plan.lines.points), plan.points);
+      const setId = (i: number) => String(setIds[i]);
+      const points = workerPoints
+        ? () => withIds(workerPoints, plan.starts, setId, POINTS_PER_PIECE, hooks.progress)
+        : () => linesHere(plan, "points", setId, POINTS_PER_PIECE, hooks.progress);
       await bulkLoad(conn, "curve_points", ["curve_set_id", "seq", "flow", "head", "efficiency", "power", "npshr"], points, plan.points);
     });
     await tx
@@ -90,56 +92,35 @@ export async function writeImport(
 }
 
 const SETS_PER_PIECE = 2000;
-const optField = (x: number) => (x === x ? String(x) : "\\N");
-
-/** Curve sets as LOAD DATA text, in pieces (the stream takes one per turn of the event loop). */
-export function* setsText(plan: ImportPlan, modelIds: Map<string, number>, revisionId: number): Generator<string> {
-  const curves = plan.setModel.length;
-  let s = "";
-  for (let i = 0; i < curves; i++) {
-    const [speed, impeller, qMin, qMax, hMax, hMin, count] = setFigures(plan, i);
-    const modelId = modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))!;
-    s += `${modelId}\t${revisionId}\t${optField(speed)}\t${optField(impeller)}\t${qMin}\t${qMax}\t${hMax}\t${hMin}\t${count}\n`;
-    if (i % SETS_PER_PIECE === SETS_PER_PIECE - 1) {
-      yield s;
-      s = "";
-    }
-  }
-  if (s) yield s;
-}
 
 /**
- * Curve points as LOAD DATA text straight from the plan's typed arrays, in pieces of about
- * POINTS_PER_PIECE points: the stream hands each piece to the server while the next is made (a few
- * milliseconds each, so the event loop is never held), and each piece reports progress.
+ * The LOAD DATA text of the curve sets or of the points when the worker's lines are not there: the same lines, made
+ * by the same functions (import-plan.ts setLines / pointLines), here a piece at a time — the curve sets of about
+ * `perPiece` lines, so the stream hands each piece to the server while the next is made (the event loop is never
+ * held for long) — with `prefix(set)` put in front of each line by withIds, and the lines so far to `progress` after each piece.
  */
-export function* pointsText(plan: Pick<ImportPlan, "starts" | "values">, setIds: number[], progress?: ProgressSink): Generator<string> {
-  const v = plan.values;
-  const opt = optField;
-  let s = "";
-  let inPiece = 0;
-  let done = 0;
-  for (let i = 0; i < setIds.length; i++) {
-    const id = String(setIds[i]);
-    const a = plan.starts[i], b = plan.starts[i + 1];
-    for (let k = a; k < b; k++) {
-      const o = k * 5;
-      s += `${id}\t${k - a}\t${v[o]}\t${v[o + 1]}\t${opt(v[o + 2])}\t${opt(v[o + 3])}\t${opt(v[o + 4])}\n`;
-    }
-    inPiece += b - a;
-    if (inPiece >= POINTS_PER_PIECE) {
-      done += inPiece;
-      inPiece = 0;
-      yield s;
-      s = "";
-      progress?.(done);
-    }
-  }
-  if (s) {
-    yield s;
-    progress?.(done + inPiece);
+export function* linesHere(
+  plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">,
+  part: "sets" | "points",
+  prefix: (set: number) => string,
+  perPiece: number,
+  progress?: ProgressSink,
+): Generator<Uint8Array> {
+  const sets = plan.starts.length - 1;
+  const firstLine = part === "points" ? (i: number) => plan.starts[i] : (i: number) => i;
+  for (let g = 0; g < sets; ) {
+    let h = g;
+    while (h < sets && firstLine(h) - firstLine(g) < perPiece) h++;
+    const piece = planPart(plan, g, h);
+    const lines = part === "points" ? pointLines(piece) : setLines(piece);
+    yield* withIds(lines, part === "points" ? piece.starts : oneEach(h - g), (i) => prefix(g + i), Infinity);
+    progress?.(firstLine(h));
+    g = h;
   }
 }
+
+/** Line starts of `groups` groups of one line each. */
+const oneEach = (groups: number) => Int32Array.from({ length: groups + 1 }, (_, i) => i);
 
 /** The worker's lines when they are there and one per row expected. */
 const usable = (lines: Lines | null | undefined, rows: number) => (lines && lines.ends.length === rows + 1 ? lines : null);

@@ -15,7 +15,7 @@ import { generateDemo } from "../../../fixtures/demo/generate";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, UploadRejected, type Viewer } from "./index";
 import { MappingSchema } from "../import";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
+import { viewerOfUser } from "../projects/test-kit";
 import { prng } from "../../../fixtures/prng";
 
 afterAll(() => closeDb());
@@ -23,8 +23,7 @@ afterAll(() => closeDb());
 let viewer: Viewer;
 beforeAll(async () => {
   const m = await makeMember("distributor");
-  const ws = (await workspacesOf(m.userId)).find((w) => w.id === m.workspaceId)!;
-  viewer = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: m.role };
+  viewer = await viewerOfUser(m.userId, m.role);
 });
 
 

@@ -19,14 +19,11 @@ import {
   type Viewer,
 } from "./index";
 import { makeMember, makeWorkspace, type TestMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
+import { viewerOfUser } from "../projects/test-kit";
 
 afterAll(() => closeDb());
 
-async function viewerOf(m: TestMember): Promise<Viewer> {
-  const ws = (await workspacesOf(m.userId)).find((w) => w.id === m.workspaceId)!;
-  return { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: m.role };
-}
+const viewerOf = (m: TestMember): Promise<Viewer> => viewerOfUser(m.userId, m.role);
 const csv = (name: string, type = "text/csv") => new File([readFileSync(`fixtures/csv/${name}`)], name, { type });
 
 async function importFixture(v: Viewer, libId: number, name: string) {

@@ -31,7 +31,7 @@ parentPort?.on("message", async ({ id, job, uploadId }: { id: number; job: Analy
         try {
           lines = make(keep);
         } catch {
-          /* the writer formats them itself */
+          /* the writer makes them itself, a piece at a time */
         }
         parentPort!.postMessage({ id, part, lines }, lines ? [lines.bytes.buffer as ArrayBuffer, lines.ends.buffer as ArrayBuffer] : []);
       }

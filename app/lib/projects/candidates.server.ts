@@ -2,14 +2,14 @@
 // are read by `PicksSchema` and added by `addCandidates` in one transaction. A curve already on the
 // system is skipped; one the viewer may not use (another workspace's library, a shared library the plan
 // does not open) refuses the whole request before anything is written.
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { data } from "react-router";
 import * as v from "valibot";
-import { withTransaction, db } from "@db/client.server";
-import { candidates, curveSets, libraries, libraryRevisions, systems } from "@db/schema";
+import { withTransaction } from "@db/client.server";
+import { candidates, systems } from "@db/schema";
 import { DEFAULT_ADJUSTMENT, type Adjustment } from "./hydraulics";
-import { candidateCurveOpen, type Viewer } from "../libraries";
-import { assertOpenCurveSets, getSystem, MAX_CANDIDATES } from "./projects.server";
+import { type Viewer } from "../libraries";
+import { assertOpenCurveSets, getSystem, MAX_CANDIDATES, openCandidates } from "./projects.server";
 
 /** At most this many ticked rows in one request (the search shows fewer; anything more is not a person ticking). */
 export const MAX_PICKS = 20;
@@ -69,18 +69,10 @@ export async function addCandidates(viewer: Viewer, systemId: number, picks: Pic
 }
 
 /**
- * The curve sets on a system that its candidates list shows (the plan gate as in `listCandidates`), in one
+ * The curve sets on a system that its candidates list shows (the same rows and plan gate as `listCandidates`), in one
  * query and without reading their curves: the search page marks these rows and counts them. Nothing for a
  * system outside the viewer's workspace.
  */
 export async function candidateSetIds(viewer: Viewer, systemId: number): Promise<number[]> {
-  const rows = await db()
-    .select({ curveSetId: candidates.curveSetId, workspaceId: libraries.workspaceId, visibility: libraries.visibility })
-    .from(candidates)
-    .innerJoin(systems, eq(systems.id, candidates.systemId))
-    .innerJoin(curveSets, eq(curveSets.id, candidates.curveSetId))
-    .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
-    .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
-    .where(and(eq(candidates.systemId, systemId), eq(systems.workspaceId, viewer.workspace.id)));
-  return rows.filter((r) => candidateCurveOpen(viewer, r)).map((r) => r.curveSetId);
+  return (await openCandidates(viewer, systemId)).map((r) => r.c.curveSetId);
 }

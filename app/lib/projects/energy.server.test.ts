@@ -14,13 +14,12 @@ import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { readSystemForm } from "./system-form";
 import { lifeCycleCost } from "~/engine";
 import { call, makeMember, type TestMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
 import * as systemPage from "~/routes/systems.$id";
 import { SI_UNITS } from "~/lib/shared/units";
+import { M3H, viewerOfUser } from "./test-kit";
 
 afterAll(() => closeDb());
 
-const M3H = 1 / 3600;
 let m: TestMember;
 let eng: Viewer;
 let systemId: number;
@@ -29,8 +28,7 @@ let candidateId: number;
 beforeAll(async () => {
   m = await makeMember("admin");
   await db().update(workspaces).set({ plan: "network", currency: "GBP" }).where(eq(workspaces.id, m.workspaceId));
-  const ws = (await workspacesOf(m.userId))[0];
-  eng = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
+  eng = await viewerOfUser(m.userId);
   const input: SystemInput = { ...defaultSystemInput(), mode: "closed-loop", controlHead: 0, staticLow: 0, staticHigh: 0, duty: { flow: 60 * M3H, head: 20 }, hoursPerYear: 5000 };
   input.runs = input.runs.map((r) => ({ ...r, diameter: 0.125, length: r.side === "discharge" ? 400 : 5 }));
   systemId = await createSystem(eng, await createProject(eng, { name: "Energy", site: "", description: "" }), "Heating loop", input);

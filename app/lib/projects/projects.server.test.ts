@@ -3,7 +3,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { analyseStored, createLibrary, curvesToCsv, getUpload, importUpload, libraryCurves, storeUpload, updateLibrary, type Viewer } from "../libraries";
+import { createLibrary, curvesToCsv, libraryCurves, updateLibrary, type Viewer } from "../libraries";
 import { addCandidate, adjustCandidate, copyProject, createProject, createSystem, listSystems, systemWorkbench, MAX_CANDIDATES } from "./projects.server";
 import { getSelection, selectCandidate } from "./selections.server";
 import { searchForSystem } from "./search.server";
@@ -12,7 +12,7 @@ import { readSystemForm, systemFormValues } from "./system-form";
 import { analyseCsv } from "../import";
 import { makeMember } from "~/test/harness";
 import { formOf } from "~/test/form-data";
-import { workspacesOf } from "../auth/guards.server";
+import { importCsvText, viewerOfUser } from "./test-kit";
 import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
@@ -75,13 +75,9 @@ let eng: Viewer;
 let libId: number;
 beforeAll(async () => {
   const m = await makeMember("admin");
-  const ws = (await workspacesOf(m.userId))[0];
-  eng = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
+  eng = await viewerOfUser(m.userId);
   libId = await createLibrary(eng, { name: "Own pumps", description: "" });
-  const text = readFileSync("fixtures/demo/tallowmere.csv", "utf8");
-  const uploadId = await storeUpload(eng, libId, new File([text], "t.csv", { type: "text/csv" }));
-  const u = await getUpload(eng, libId, uploadId);
-  await importUpload(eng, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+  await importCsvText(eng, libId, readFileSync("fixtures/demo/tallowmere.csv", "utf8"));
   await updateLibrary(eng, libId, { name: "Own pumps", description: "", visibility: "workspace" });
 });
 

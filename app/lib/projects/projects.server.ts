@@ -196,19 +196,29 @@ export type CandidateView = {
   purchasePriceCents: number | null;
 };
 
-export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
-  const s = await getSystem(viewer, systemId);
+/**
+ * A system's candidates in the order added, each with its curve set's revision and library, keeping only those whose
+ * library the viewer may still use; nothing for a system outside the viewer's workspace. One query, no curves read:
+ * `listCandidates` reads the curves of these, the search page (`candidateSetIds`) marks their rows.
+ */
+export async function openCandidates(viewer: Viewer, systemId: number) {
   const all = await db()
     .select({ c: candidates, revisionId: curveSets.revisionId, libraryName: libraries.name, libraryWorkspaceId: libraries.workspaceId, libraryVisibility: libraries.visibility })
     .from(candidates)
+    .innerJoin(systems, eq(systems.id, candidates.systemId))
     .innerJoin(curveSets, eq(curveSets.id, candidates.curveSetId))
     .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
     .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
-    .where(eq(candidates.systemId, s.id))
+    .where(and(eq(candidates.systemId, systemId), eq(systems.workspaceId, viewer.workspace.id)))
     .orderBy(asc(candidates.id));
   // The plan gate: a candidate from another workspace's library (added while on the paid plan) shows no
   // curve once the plan no longer opens it, or once its owner stops sharing it. Selections keep their frozen copy.
-  const rows = all.filter((r) => candidateCurveOpen(viewer, { workspaceId: r.libraryWorkspaceId, visibility: r.libraryVisibility }));
+  return all.filter((r) => candidateCurveOpen(viewer, { workspaceId: r.libraryWorkspaceId, visibility: r.libraryVisibility }));
+}
+
+export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
+  const s = await getSystem(viewer, systemId);
+  const rows = await openCandidates(viewer, s.id);
   if (rows.length === 0) return [];
   const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
   return rows

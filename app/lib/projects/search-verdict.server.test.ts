@@ -7,17 +7,16 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "@db/client.server";
 import { workspaces } from "@db/schema";
-import { analyseStored, createLibrary, getUpload, importUpload, listLibraries, storeUpload, updateLibrary, type Viewer } from "../libraries";
+import { createLibrary, listLibraries, updateLibrary, type Viewer } from "../libraries";
 import { createProject, createSystem } from "./projects.server";
 import { searchForSystem } from "./search.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
 import { makeMember } from "~/test/harness";
-import { workspacesOf } from "../auth/guards.server";
 import { inSI } from "~/engine/quantityText";
+import { importCsvText, M3H, viewerOfUser } from "./test-kit";
 
 afterAll(() => closeDb());
 
-const M3H = 1 / 3600;
 const OWN = "Own copy of Tallowmere";
 let eng: Viewer;
 let systemId: number;
@@ -27,13 +26,9 @@ beforeAll(async () => {
   // one distributor's file: the same curves reached through two libraries.
   const m = await makeMember("admin");
   await db().update(workspaces).set({ plan: "network" }).where(eq(workspaces.id, m.workspaceId));
-  const ws = (await workspacesOf(m.userId))[0];
-  eng = { userId: m.userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
+  eng = await viewerOfUser(m.userId);
   const libId = await createLibrary(eng, { name: OWN, description: "" });
-  const text = readFileSync("fixtures/demo/tallowmere.csv", "utf8");
-  const uploadId = await storeUpload(eng, libId, new File([text], "t.csv", { type: "text/csv" }));
-  const u = await getUpload(eng, libId, uploadId);
-  await importUpload(eng, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+  await importCsvText(eng, libId, readFileSync("fixtures/demo/tallowmere.csv", "utf8"));
   await updateLibrary(eng, libId, { name: OWN, description: "", visibility: "workspace" });
   const input: SystemInput = { ...defaultSystemInput(), staticLow: 12, staticHigh: 12, duty: { flow: 108 * M3H, head: 28 } };
   input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));

@@ -1,4 +1,5 @@
-// Tests only: a search fixture shared by the search tests (search-cache, search-kept). A workspace on
+// Tests only: the viewer as the guards build it and CSV text imported as the mapping page does, which many service
+// and route tests start from; and a search fixture shared by the search tests (search-cache, search-kept). A workspace on
 // the paid plan with a library of part of a demo CSV (invented data, fixtures/demo/) and one system
 // whose duty lies among its curves; CSV text imported through the same path as the mapping page.
 import { readFileSync } from "node:fs";
@@ -7,23 +8,25 @@ import { db } from "@db/client.server";
 import { workspaces } from "@db/schema";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries";
 import { workspacesOf } from "../auth/guards.server";
+import type { Role } from "../auth/permissions";
 import { makeMember } from "~/test/harness";
 import { createProject, createSystem } from "./projects.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
 
 export const M3H = 1 / 3600;
 
-/** The viewer as the guards build it on each request (the plan read from the database). */
-export async function viewerOfUser(userId: string): Promise<Viewer> {
+/** The viewer as the guards build it on each request (the workspace and its plan read from the database), with `role`. */
+export async function viewerOfUser(userId: string, role: Role = "admin"): Promise<Viewer> {
   const ws = (await workspacesOf(userId))[0];
-  return { userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role: "admin" };
+  return { userId, workspace: { id: ws.id, name: ws.name, slug: ws.slug, plan: ws.plan }, role };
 }
 
-/** Imports CSV text as a new revision of the library, with the mapping the analysis proposes. */
-export async function importCsvText(v: Viewer, libId: number, text: string, filename = "t.csv") {
+/** Imports CSV text as a new revision of the library (with `note`), with the mapping the analysis proposes; the upload's id. */
+export async function importCsvText(v: Viewer, libId: number, text: string, filename = "t.csv", note = ""): Promise<number> {
   const uploadId = await storeUpload(v, libId, new File([text], filename, { type: "text/csv" }));
   const u = await getUpload(v, libId, uploadId);
-  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping);
+  await importUpload(v, libId, uploadId, analyseStored(u.text, u.lib).mapping, note);
+  return uploadId;
 }
 
 /**

@@ -1,0 +1,68 @@
+// The library page's markup, rendered on the server from loader data (no database): each curve's
+// label is written once in its point table, and the table keeps its accessible name.
+import { describe, expect, it } from "vitest";
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { createRoutesStub } from "react-router";
+import LibraryPage from "~/routes/libraries.$id";
+import { SI_UNITS } from "~/lib/shared/units";
+
+// Two invented points of one curve (SI as stored: m³/s, m, fraction, W, m).
+const points = [
+  { flow: 0.001, head: 30, efficiency: 0.5, power: 1000, npshr: 2 },
+  { flow: 0.01, head: 20, efficiency: 0.7, power: 2000, npshr: 3 },
+];
+const data = {
+  lib: { id: 1, name: "Test library", description: "", visibility: "workspace", owner: "Owner", access: "owner" },
+  locked: false,
+  writer: false,
+  canPublish: false,
+  unitSystem: SI_UNITS,
+  filters: { q: "", type: "", size: "", speed: "", flow: "", head: "", sort: "name" },
+  models: [{ id: 5, name: "Model X", type: "", size: "", curveCount: 2, flowMax: 0.01, headMax: 30, speeds: [2900] }],
+  modelId: 5,
+  modelName: "Model X",
+  curves: [
+    { id: 9, speed: 2900, impellerDiameter: 0.25, points },
+    { id: 10, speed: 2900, impellerDiameter: 0.2, points },
+  ],
+  revisions: [],
+  pending: [],
+  imported: "",
+  imports: [],
+  importId: 0,
+  refreshHref: "/libraries/1",
+};
+
+function render(): string {
+  const Stub = createRoutesStub([{ path: "/libraries/:id", Component: LibraryPage as never, loader: () => data }]);
+  return renderToString(createElement(Stub, { initialEntries: ["/libraries/1"], hydrationData: { loaderData: { "0": data } } } as never));
+}
+const count = (s: string, needle: string) => s.split(needle).length - 1;
+const text = (s: string) => s.replace(/<[^>]*>/g, "").replace(/&amp;/g, "&");
+
+describe("library page: point tables", () => {
+  // 0.25 m = 250 mm, 0.2 m = 200 mm (SI diameters in mm: the app's preset).
+  const labels = ["2900 rpm · Ø250 mm", "2900 rpm · Ø200 mm"];
+  it("writes each curve's label once in its point table, and names the table by model and curve", () => {
+    const html = render();
+    const start = html.indexOf("Point tables of");
+    expect(start, "the point tables are on the page").toBeGreaterThan(0);
+    const tables = html.slice(start, html.indexOf("</details>", start)).split("<table").slice(1);
+    expect(tables).toHaveLength(2);
+    tables.forEach((t, i) => {
+      expect(count(t, labels[i]), `label of curve ${i + 1} in its table`).toBe(1);
+      // The caption names the table (HTML-AAM: a table without aria-label takes its caption as its name).
+      expect(t).not.toContain("aria-label");
+      const caption = /<caption[^>]*>([\s\S]*?)<\/caption>/.exec(t)?.[1] ?? "";
+      expect(text(caption)).toBe(`Points of Model X ${labels[i]}`);
+    });
+  });
+
+  it("the chart's table view of a library's curves (no system curve) claims no operating point", () => {
+    const html = render();
+    expect(html).not.toContain("does not meet the system curve");
+    expect(html).not.toContain("operating point");
+    expect(count(html, labels[0])).toBeGreaterThan(0); // the curve is still named: legend, table view, point table
+  });
+});
