@@ -6,7 +6,8 @@
 // Expected values: our product rules (MODEL_PAGE_ROWS, name order) and the stored revision read afresh.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { analyseStored, createLibrary, curvesOfRevisions, getLibrary, getUpload, importUpload, listModels, MODEL_PAGE_ROWS, storeUpload, updateLibrary } from "~/lib/libraries";
+import { createLibrary, curvesOfRevisions, getLibrary, listModels, MODEL_PAGE_ROWS, updateLibrary } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
 import { pageOf } from "~/lib/shared/paging";
 import { call, makeMember, type TestMember } from "./harness";
 import { bigLibraryCsv } from "./big-library";
@@ -31,9 +32,7 @@ const load = async (libId: number, query = "") => {
 };
 
 async function importInto(libId: number, csv: string, name: string) {
-  const uploadId = await storeUpload(dv, libId, new File([csv], `${name}.csv`, { type: "text/csv" }));
-  const { text, lib } = await getUpload(dv, libId, uploadId);
-  await importUpload(dv, libId, uploadId, analyseStored(text, lib).mapping);
+  await importCsvText(dv, libId, csv, `${name}.csv`);
   await updateLibrary(dv, libId, { name, description: "", visibility: "workspace" });
 }
 
