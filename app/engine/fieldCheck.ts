@@ -17,6 +17,7 @@ import { evalCubic } from "./interp.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
+import { fmtPctExact } from "./quantityText.ts";
 
 /** An acceptance grade: allowed deviations as fractions, [below, above]. */
 export interface ToleranceGrade {
@@ -269,7 +270,7 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
     return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "measured", curveHead,
       headDeviation, flowDeviation, powerDeviation, flowBand: null, grades: verdicts, bestGrade: best, verdict, dutyDeviation,
       message: best ? `Delivered point is within grade ${best} of the curve`
-        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${(headDeviation * 100).toFixed(1)} % from curve)` : ""}`,
+        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctExact(headDeviation, grades.flatMap((g) => [-g.head[0], g.head[1]]))} from curve)` : ""}`,
       warnings };
   }
 

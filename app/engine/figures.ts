@@ -15,7 +15,7 @@ import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
-import { qt } from "./quantityText.ts";
+import { fmtPctExact, qt } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -175,7 +175,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
   const bep = c.bep;
   const bepRatio = bep ? flow / bep.flow : null;
   const inPor = c.por ? flow >= c.por.min && flow <= c.por.max : null;
-  if (inPor === false) warnings.push({ code: "outside-por", message: `operating at ${Math.round((bepRatio ?? 0) * 100)} % of BEP flow, outside the preferred operating region (70–120 %)` });
+  if (inPor === false) warnings.push({ code: "outside-por", message: `operating at ${fmtPctExact(bepRatio ?? 0, [0.7, 1.2], 0)} of BEP flow, outside the preferred operating region (70–120 %)` });
 
   let npsh: OperatingFigures["npsh"] = null;
   const requiredMargin = requirePositive("requiredMargin", input.requiredMargin ?? DEFAULT_NPSH_MARGIN);

@@ -41,6 +41,31 @@ export function fmtPct(x: number | null | undefined, digits = 1): string {
 }
 
 /**
+ * A fraction as a percentage in a text that compares it with thresholds: as fmtPct, with more decimals
+ * (up to 6) while it would read the same as one of `against`, or as zero, though it is not, so a value
+ * judged outside a limit never reads as the limit ("99.96 %" beside a limit of 100 %, not "100.0 %").
+ * @param x the fraction (dimensionless)
+ * @param against the thresholds it is compared with (fractions, dimensionless)
+ * @param digits decimals at the least (count)
+ */
+export function fmtPctExact(x: number | null | undefined, against: readonly number[] = [], digits = 1): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  const shown = (v: number, d: number) => Number((v * 100).toFixed(d)); // -0 and 0 read the same
+  let d = digits;
+  while (d < 6 && [0, ...against].some((a) => a !== x && shown(a, d) === shown(x, d))) d++;
+  return fmtPct(x, d);
+}
+
+/**
+ * A threshold as a percentage with the decimals it needs (at most 3, no trailing zeros): a tolerance or a
+ * range end as typed, e.g. 0.025 → "2.5 %", 0.011 → "1.1 %", 0.1 → "10 %".
+ * @param x the fraction (dimensionless)
+ */
+export function fmtPctLimit(x: number): string {
+  return Number.isFinite(x) ? `${Number((x * 100).toFixed(3))} %` : "—";
+}
+
+/**
  * An SI value as text in the unit chosen for its quantity, e.g. `"42.0 m³/h"`; "—" for a missing or non-finite value.
  * @param units unit id per quantity (unitless ids)
  * @param q physical quantity (unitless id)

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { catalogueReasons, EngineInputError, judgeCandidate, type BandEdge } from "./index.ts";
-import { inSI, renderQuantities } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit, inSI, renderQuantities } from "./quantityText.ts";
 import { UNIT_SYSTEMS } from "./units.ts";
 
 const M3H = 1 / 3600;
@@ -79,6 +79,34 @@ describe("worst edge of the band decides", () => {
   });
 });
 
+describe("numbers beside a verdict never read as the limit they were judged against (product rule)", () => {
+  it("fmtPctExact adds decimals only while a value would read as a threshold (or zero) it is not; fmtPctLimit shows a limit as typed", () => {
+    expect(fmtPctExact(0.9996, [1])).toBe("99.96 %");
+    expect(fmtPctExact(1, [1])).toBe("100.0 %"); // the limit itself reads as itself
+    expect(fmtPctExact(0.97, [1])).toBe("97.0 %");
+    expect(fmtPctExact(0.2999, [0.3, 1])).toBe("29.99 %");
+    expect(fmtPctExact(0.69996, [0.7, 1.2], 0)).toBe("69.996 %");
+    expect(fmtPctExact(-0.00004)).toBe("-0.004 %"); // not "-0.0 %"
+    expect(fmtPctExact(NaN)).toBe("—");
+    expect(fmtPctLimit(0.025)).toBe("2.5 %");
+    expect(fmtPctLimit(0.011000000000000001)).toBe("1.1 %");
+    expect(fmtPctLimit(0.1)).toBe("10 %");
+  });
+  it("sweep: a short or oversized verdict's percentage of the duty never reads as a limit of its tolerance", () => {
+    for (const tolerance of [{ minus: 0, plus: 0.1 }, { minus: 0.025, plus: 0.011 }, { minus: 0.05, plus: 0.05 }]) {
+      for (const limit of [1 - tolerance.minus, 1 + tolerance.plus]) {
+        for (const off of [-1e-3, -1e-4, -2e-6, 2e-6, 1e-4, 1e-3]) {
+          const v = judge(QD * limit * (1 + off), { tolerance });
+          if (v.status === "meets") continue;
+          const shown = /: ([\d.]+) % of the duty/.exec(v.reasons[0])![1];
+          expect(Number(shown), `${v.status} at ${limit} × (1 ${off})`).not.toBe(Number((limit * 100).toFixed(shown.split(".")[1]?.length ?? 0)));
+          expect(inSI(v.rule)).not.toMatch(/\d\.\d{6,}/); // no raw float such as 0.011000000000000001
+        }
+      }
+    }
+  });
+});
+
 describe("catalogue limits (the model's published impellers; speed 30–100 % of rated, common practice)", () => {
   const cat = { minDiameter: 0.175, maxDiameter: 0.195 };
   it("trim 1 mm below the smallest published impeller is outside; at it and 1 mm above is inside", () => {
@@ -89,7 +117,7 @@ describe("catalogue limits (the model's published impellers; speed 30–100 % of
   it("1 mm above the largest is outside; the largest itself is inside", () => {
     expect(judge(QD, { catalogue: { ...cat, diameter: 0.196 } }).status).toBe("outside-catalogue");
     expect(judge(QD, { catalogue: { ...cat, diameter: 0.195 } }).status).toBe("meets");
-    expect(inSI(catalogueReasons({ ...cat, diameter: 0.196 })[0])).toBe("impeller Ø196 mm is above the largest the model publishes (Ø195 mm)");
+    expect(inSI(catalogueReasons({ ...cat, diameter: 0.196 })[0])).toBe("impeller Ø196 mm is above the largest the model publishes (Ø195 mm): 100.5 % of it");
   });
   it("speed 29 % of rated is outside, 30 % is inside; 100 % inside, 101 % outside", () => {
     const at = (f: number) => judge(QD, { catalogue: { speed: 2900 * f, ratedSpeed: 2900 } }).status;

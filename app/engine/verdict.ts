@@ -22,7 +22,7 @@
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
-import { fmtPct, qt } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, qt } from "./quantityText.ts";
 import { MAX_TRIM_FRACTION } from "./affinity.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
@@ -136,17 +136,17 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
     requirePositive("catalogue.diameter", d);
     const lo = c.minDiameter ?? null, hi = c.maxDiameter ?? null;
     if (lo !== null && d < requirePositive("catalogue.minDiameter", lo) * (1 - eps))
-      out.push(`impeller ${diameterText(d)} is below the smallest the model publishes (${diameterText(lo)})`);
+      out.push(`impeller ${diameterText(d)} is below the smallest the model publishes (${diameterText(lo)}): ${fmtPctExact(d / lo, [1])} of it`);
     if (hi !== null && d > requirePositive("catalogue.maxDiameter", hi) * (1 + eps))
-      out.push(`impeller ${diameterText(d)} is above the largest the model publishes (${diameterText(hi)})`);
+      out.push(`impeller ${diameterText(d)} is above the largest the model publishes (${diameterText(hi)}): ${fmtPctExact(d / hi, [1])} of it`);
   }
   const t = c.trimRatio ?? null;
   if (t !== null) {
     requirePositive("catalogue.trimRatio", t);
     const unpublished = "the model publishes no impeller diameters to back it";
     if ((d === null || c.minDiameter == null) && t < (1 - MAX_TRIM_FRACTION) * (1 - eps))
-      out.push(`impeller trimmed to ${fmtPct(t)} of the published one is a trim of more than ${fmtPct(MAX_TRIM_FRACTION, 0)}, and ${unpublished}`);
-    if ((d === null || c.maxDiameter == null) && t > 1 + eps) out.push(`impeller at ${fmtPct(t)} of the published one is larger than the published curve's, and ${unpublished}`);
+      out.push(`impeller trimmed to ${fmtPctExact(t, [1 - MAX_TRIM_FRACTION])} of the published one is a trim of more than ${fmtPctLimit(MAX_TRIM_FRACTION)}, and ${unpublished}`);
+    if ((d === null || c.maxDiameter == null) && t > 1 + eps) out.push(`impeller at ${fmtPctExact(t, [1])} of the published one is larger than the published curve's, and ${unpublished}`);
   }
   const range = c.speedRange ?? DEFAULT_SPEED_RANGE;
   const rMin = requirePositive("catalogue.speedRange.min", range.min), rMax = requirePositive("catalogue.speedRange.max", range.max);
@@ -155,14 +155,14 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
   let what = "";
   if (c.speed != null && c.ratedSpeed != null) {
     frac = requirePositive("catalogue.speed", c.speed) / requirePositive("catalogue.ratedSpeed", c.ratedSpeed);
-    what = `${Math.round(c.speed)} rpm is ${fmtPct(frac)} of the rated ${Math.round(c.ratedSpeed)} rpm`;
+    what = `${Math.round(c.speed)} rpm is ${fmtPctExact(frac, [rMin, rMax])} of the rated ${Math.round(c.ratedSpeed)} rpm`;
   } else if (c.speedRatio != null) {
     frac = requirePositive("catalogue.speedRatio", c.speedRatio);
-    what = `speed ${fmtPct(frac)} of the curve's speed`;
+    what = `speed ${fmtPctExact(frac, [rMin, rMax])} of the curve's speed`;
   }
   if (frac !== null) {
-    if (frac < rMin * (1 - eps)) out.push(`${what}, below the allowed ${fmtPct(rMin, 0)}`);
-    else if (frac > rMax * (1 + eps)) out.push(`${what}, above the allowed ${fmtPct(rMax, 0)}`);
+    if (frac < rMin * (1 - eps)) out.push(`${what}, below the allowed ${fmtPctLimit(rMin)}`);
+    else if (frac > rMax * (1 + eps)) out.push(`${what}, above the allowed ${fmtPctLimit(rMax)}`);
   }
   return out;
 }
@@ -191,7 +191,7 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const cat = catalogueReasons(input.catalogue);
   if (cat.length) {
     return { status: "outside-catalogue", edge: null,
-      rule: `outside-catalogue: impeller within the model's published diameters (a trim of at most ${fmtPct(MAX_TRIM_FRACTION, 0)} where none are published) and speed within ${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min, 0)}–${fmtPct((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max, 0)} of rated`,
+      rule: `outside-catalogue: impeller within the model's published diameters (a trim of at most ${fmtPctLimit(MAX_TRIM_FRACTION)} where none are published) and speed within ${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min)}–${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max)} of rated`,
       reasons: cat.map((r) => `The ${r}: no published curve backs this pump.`) };
   }
 
@@ -210,14 +210,15 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const lo = qd * (1 - tol.minus), hi = qd * (1 + tol.plus);
   const band = input.edges.length > 1 ? ` (${qt("flow", best.flow as number)} at ${best.name})` : "";
   const ratio = q / qd;
-  const tolText = `−${fmtPct(tol.minus, 0)}/+${fmtPct(tol.plus, 0)}`;
+  const tolText = `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
+  const ratioText = fmtPctExact(ratio, [1 - tol.minus, 1 + tol.plus]);
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
-      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${tol.minus}) = ${qt("flow", lo)}`,
-      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${fmtPct(ratio)} of the duty, outside the tolerance ${tolText}${band}.`] };
+      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${qt("flow", lo)}`,
+      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
   }
   if (q > hi * (1 + eps)) {
-    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${fmtPct(ratio)} of the duty, above the tolerance ${tolText}.`];
+    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${ratioText} of the duty, above the tolerance ${tolText}.`];
     const now = input.powerNow ?? null;
     for (const s of input.savings ?? []) {
       if (s.outside?.length) reasons.push(`${cap(s.means)} to the duty (${s.how}) is not an option the maker publishes: the ${s.outside.join("; the ")}.`);
@@ -225,11 +226,11 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
       else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPct((now - s.power) / now, 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
-      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${tol.plus}) = ${qt("flow", hi)}`, reasons };
+      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${qt("flow", hi)}`, reasons };
   }
   return { status: "meets", edge: worst.name,
     rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText})`,
-    reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${fmtPct(ratio)} of the duty ${qt("flow", qd)}${band}.`] };
+    reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${fmtPct(ratio)} of the duty ${qt("flow", qd)}${band}.`] }; // meets: a rounded limit reads true
 }
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);

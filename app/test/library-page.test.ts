@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub } from "react-router";
-import LibraryPage from "~/routes/libraries.$id";
+import LibraryPage, { type loader } from "~/routes/libraries.$id";
 import { SI_UNITS } from "~/lib/shared/units";
 
 // Two invented points of one curve (SI as stored: m³/s, m, fraction, W, m).
@@ -19,20 +19,21 @@ const data = {
   canPublish: false,
   unitSystem: SI_UNITS,
   filters: { q: "", type: "", size: "", speed: "", flow: "", head: "", sort: "name" },
+  paging: { page: 1, pages: 1, pageSize: 50, total: 1, first: 0 },
+  modelMissing: null,
   models: [{ id: 5, name: "Model X", type: "", size: "", curveCount: 2, flowMax: 0.01, headMax: 30, speeds: [2900] }],
   modelId: 5,
   modelName: "Model X",
-  curves: [
-    { id: 9, speed: 2900, impellerDiameter: 0.25, points },
-    { id: 10, speed: 2900, impellerDiameter: 0.2, points },
-  ],
+  curves: [0.25, 0.2].map((impellerDiameter, i) => ({
+    id: 9 + i, modelId: 5, model: "Model X", type: "", nominalSize: "", speed: 2900, impellerDiameter, impellerMin: 0.2, impellerMax: 0.25, ratedSpeed: 2900, points,
+  })),
   revisions: [],
   pending: [],
   imported: "",
   imports: [],
   importId: 0,
   refreshHref: "/libraries/1",
-};
+} satisfies Awaited<ReturnType<typeof loader>>; // the loader's own shape: a field it adds must be added here
 
 function render(): string {
   const Stub = createRoutesStub([{ path: "/libraries/:id", Component: LibraryPage as never, loader: () => data }]);

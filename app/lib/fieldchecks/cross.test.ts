@@ -53,6 +53,15 @@ describe("the grade as a tolerance cross: which arm, by how much", () => {
     expect(justIn.verdict).toBe("pass");
   });
 
+  test("at the edge the numbers never read as the limit: head 5.004 % low fails 2B and says −5.004 %, 0.004 points outside", () => {
+    // Hand-worked: 28.8 × (1 − 0.05004) m measured against the curve's 28.8 m at 0.012 m³/s.
+    const out = evaluateCheck(f, readings(fieldsForHead(28.8 * (1 - 0.05004), RHO20, { flow: "0.012" })), "2B");
+    expect(out.verdict).toBe("fail");
+    const text = crossSentences(crossOf(out)!, fmt).join(" ");
+    expect(text).toContain("is −5.004 % (allowed −5 % to +5 %) — not met, 0.004 points outside.");
+    expect(text).not.toMatch(/−5\.0 % \(allowed/);
+  });
+
   test("no flow meter: no cross (no verdict)", () => {
     const r2 = evaluateCheck(f, readings(fieldsForHead(28.8, RHO20)), "2B");
     expect(crossOf(r2)).toBeNull();

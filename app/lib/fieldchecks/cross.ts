@@ -3,6 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
+import { fmtPctExact, fmtPctLimit } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -36,8 +37,9 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
   return { grade: r.grade.id, head, flow, passedOn };
 }
 
-const pc = (x: number) => `${x >= 0 ? "+" : "−"}${Math.abs(x * 100).toFixed(1)} %`;
-const tol = (a: readonly [number, number]) => `−${(a[0] * 100).toFixed(0)} % to +${(a[1] * 100).toFixed(0)} %`;
+// A deviation never reads as the limit it is judged against, and limits read as typed (fieldchecks round 2.5 % to 2.5 %, not 3 %).
+const pc = (x: number, allowed: readonly [number, number]) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), allowed)}`;
+const tol = (a: readonly [number, number]) => `−${fmtPctLimit(a[0])} to +${fmtPctLimit(a[1])}`;
 
 /** Sentences for the page and mail; flows and heads formatted by the caller's units. */
 export function crossSentences(x: CrossExplanation, fmt: { flow: (v: number) => string; head: (v: number) => string }): string[] {
@@ -48,8 +50,8 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: (v: number) => 
     const at = a.arm === "head" ? `at the measured ${fmt.flow(x.flow.measured)} the curve gives ${a.curveValue !== null ? fmt.head(a.curveValue) : "no head"}` : `at the measured ${fmt.head(x.head.measured)} the curve gives ${a.curveValue !== null ? fmt.flow(a.curveValue) : "no flow"}`;
     const meas = a.arm === "head" ? fmt.head(a.measured) : fmt.flow(a.measured);
     if (a.deviation === null || a.margin === null) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at} — not met (off the curve).`;
-    const by = `${(Math.abs(a.margin) * 100).toFixed(1)} points ${a.margin >= 0 ? "inside" : "outside"}`;
-    return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${pc(a.deviation)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
+    const by = `${fmtPctExact(Math.abs(a.margin)).replace(" %", "")} points ${a.margin >= 0 ? "inside" : "outside"}`;
+    return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${pc(a.deviation, a.allowed)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
   };
   out.push(line(x.head), line(x.flow));
   if (x.passedOn === "head") out.push("Met on the head arm. The flow arm's larger percentage is not a contradiction: where the curve is flat, a small head difference is a large flow difference.");
