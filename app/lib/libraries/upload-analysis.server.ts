@@ -77,7 +77,7 @@ function getWorker(): Worker {
     pending.delete(m.id);
     const plan = m.ok && m.out && "plan" in m.out ? m.out.plan : null;
     if (plan) {
-      // never rejected: null, and the writer formats them itself
+      // never rejected: null, and the writer makes the same lines itself (import-write.server.ts linesHere)
       const waiting = {} as Record<Part, (lines: Lines | null) => void>;
       plan.lines = { sets: new Promise((r) => (waiting.sets = r)), points: new Promise((r) => (waiting.points = r)) };
       pendingLines.set(m.id, waiting);
