@@ -98,7 +98,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     })),
     modelId: selected?.model.id ?? null,
     modelName: selected?.model.name ?? "",
-    curves: selected?.curves ?? [],
+    curves: (selected?.curves ?? []).map((c) => ({ id: c.id, speed: c.speed, impellerDiameter: c.impellerDiameter, points: c.points })), // what the page shows
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
     imported: query.imported,

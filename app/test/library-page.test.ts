@@ -24,9 +24,7 @@ const data = {
   models: [{ id: 5, name: "Model X", type: "", size: "", curveCount: 2, flowMax: 0.01, headMax: 30, speeds: [2900] }],
   modelId: 5,
   modelName: "Model X",
-  curves: [0.25, 0.2].map((impellerDiameter, i) => ({
-    id: 9 + i, modelId: 5, model: "Model X", type: "", nominalSize: "", speed: 2900, impellerDiameter, impellerMin: 0.2, impellerMax: 0.25, ratedSpeed: 2900, points,
-  })),
+  curves: [0.25, 0.2].map((impellerDiameter, i) => ({ id: 9 + i, speed: 2900, impellerDiameter, points })),
   revisions: [],
   pending: [],
   imported: "",

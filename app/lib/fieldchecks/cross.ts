@@ -37,7 +37,7 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
   return { grade: r.grade.id, head, flow, passedOn };
 }
 
-// A deviation never reads as the limit it is judged against, and limits read as typed (fieldchecks round 2.5 % to 2.5 %, not 3 %).
+// A deviation never reads as the limit it is judged against; limits read as typed (2.5 %, not rounded to 3 %).
 const pc = (x: number, allowed: readonly [number, number]) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), allowed)}`;
 const tol = (a: readonly [number, number]) => `−${fmtPctLimit(a[0])} to +${fmtPctLimit(a[1])}`;
 
