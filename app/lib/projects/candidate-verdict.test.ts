@@ -156,6 +156,35 @@ describe("NPSH where the pump runs: the design point and both band edges (common
   });
 });
 
+describe("downhill: the system needs no pump head at the duty flow (invented curve)", () => {
+  const pts = [[0, 22, null], [10, 21.5, 0.45], [20, 20, 0.62], [30, 17.5, 0.72], [36, 15.5, 0.74], [45, 12, 0.7], [55, 7, 0.6]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null }));
+  const set = { points: pts, speed: 2900, impellerDiameter: null };
+  const input = (staticHead: number): SystemInput => ({ ...defaultSystemInput(), staticLow: staticHead, staticHigh: staticHead, duty: { flow: 36 * M3H, head: 1 } });
+  // The static head at which the system's head at the duty flow (most lift, aged pipe) is zero: the friction there, negated.
+  const friction = evaluateSystem(input(0)).dutyCheck!.governingHead;
+
+  it("speed and trim candidates are judged at full speed and impeller with the reason, never an engine error about a duty head nobody typed", () => {
+    for (const method of ["speed", "trim"] as const) {
+      const r = evaluateCandidate(input(-3 - friction), set, { ...DEFAULT_ADJUSTMENT, method });
+      expect(r.ratio).toBe(1);
+      expect(inSI(r.ratioNote!)).toMatch(/^not solved: the system's head at the duty flow 36\.0 m³\/h, -3\.00 m at most lift, aged pipe .* is not above zero, so gravity alone delivers the duty flow/);
+      expect(r.verdict).not.toBeNull();
+    }
+  });
+
+  it("the duty check says the system needs no pump head instead of a percentage with the wrong sign; it flips where the system's head crosses zero", () => {
+    const down = evaluateSystem(input(-friction - 0.01)).dutyCheck!;
+    expect(down.governingHead).toBeLessThan(0);
+    expect(down.difference).toBeNull();
+    expect(down.differs).toBe(true);
+    expect(inSI(down.message)).toMatch(/^The system needs no pump head at 36\.0 m³\/h: its head there is -0\.010 m at most lift, aged pipe/);
+    const up = evaluateSystem(input(-friction + 0.01)).dutyCheck!;
+    expect(up.governingHead).toBeGreaterThan(0);
+    expect(up.difference!).toBeGreaterThan(0); // the typed 1 m is above the system's 0.01 m: a positive difference
+    expect(inSI(up.message)).toMatch(/^The typed duty head 1\.00 m differs by \d+\.\d % from the system's head/);
+  });
+});
+
 describe("the typed duty against the system (3 %, common practice)", () => {
   it("flags a typed head more than 3 % from the system's head at the duty flow, and says which governs", () => {
     const base = chw();

@@ -70,8 +70,8 @@ export type DutyCheck = {
   designHead: number;
   governingHead: number;
   governingEdge: string;
-  /** (typed − governing)/governing, fraction. */
-  difference: number;
+  /** (typed − governing)/governing, fraction; null where the system needs no pump head there (governing ≤ 0: downhill). */
+  difference: number | null;
   /** More than 3 % apart (common practice: a duty read off a different curve). */
   differs: boolean;
   message: string;
@@ -87,10 +87,14 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
   const designHead = systemHeadFunction(prepared)(input.duty.flow);
   const governingHead = systemHeadFunction(prepared, GOVERNING_CASE)(input.duty.flow);
   const edge = governingName(input.mode);
-  const difference = (input.duty.head - governingHead) / governingHead;
-  const differs = Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
+  // Downhill (the system's head at the duty flow ≤ 0): gravity alone delivers the duty, so a percentage of it means nothing.
+  const downhill = governingHead <= 0;
+  const difference = downhill ? null : (input.duty.head - governingHead) / governingHead;
+  const differs = difference === null || Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
   const q = qt("flow", input.duty.flow);
-  const message = differs
+  const message = difference === null
+    ? `The system needs no pump head at ${q}: its head there is ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve), so gravity alone delivers the duty flow; the typed duty head ${qt("head", input.duty.head)} is more than the system uses. Check the levels, or whether a pump is needed at this flow.`
+    : differs
     ? `The typed duty head ${qt("head", input.duty.head)} differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
     : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
   const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
@@ -209,10 +213,14 @@ export function evaluateCandidate(
       // Solve on one pump's share of the duty.
       const hSys = governingHead(input.duty.flow);
       const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: input.duty.flow, head: hSys / n } : { flow: input.duty.flow, head: hSys };
-      const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
-      warnings.push(...wText(sol.warnings));
       const where = `the system's head at the duty flow ${qt("flow", input.duty.flow)}, ${qt("head", hSys)} at ${governingName(input.mode)} (typed duty head ${qt("head", input.duty.head)})`;
-      if (sol.status === "ok" && sol.ratio) {
+      // Downhill: no pump head is needed at the duty flow, so there is no speed or trim to solve for (the engine
+      // refuses a duty head ≤ 0); the pump is judged as published, with the reason.
+      const sol = hSys <= 0 ? null : adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
+      if (sol) warnings.push(...wText(sol.warnings));
+      if (!sol) {
+        ratioNote = `not solved: ${where} is not above zero, so gravity alone delivers the duty flow and there is no head to ${adj.method === "trim" ? "trim" : "slow"} the pump to; judged at full ${adj.method === "trim" ? "impeller" : "speed"}`;
+      } else if (sol.status === "ok" && sol.ratio) {
         ratio = sol.ratio;
         ratioNote = `solved to deliver the duty flow against ${where}`;
       } else if (sol.status === "duty-above-curve") {
