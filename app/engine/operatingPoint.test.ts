@@ -1,6 +1,7 @@
 /** Tier 3 — operating point: outcomes, limits and agreement with the system model. */
 import { describe, expect, it } from "vitest";
-import { brent, createPumpCurve, fluidAt, headAt, operatingPoint, operatingPointInSystem, pipeHeadLoss, solveOperatingPoint, systemHead, waterProperties } from "./index.ts";
+import { brent, createPumpCurve, customFluid, fluidAt, headAt, operatingPoint, operatingPointInSystem, pipeHeadLoss, prepareSystem, solveOperatingPoint, systemHead, systemHeadFunction, waterProperties } from "./index.ts";
+import { inSI } from "./quantityText.ts";
 import { M3H, quadraticPoints, samplePoints } from "./test/curves.ts";
 
 describe("operatingPoint (simple API)", () => {
@@ -91,5 +92,31 @@ describe("operatingPointInSystem agrees with systemHead", () => {
     const a = operatingPointInSystem(c, sys, { roughness: "aged" });
     expect(a.flow!).toBeLessThan(n.flow!);
     expect(Math.abs(systemHead(sys, a.flow!, { roughness: "aged" }).head - a.head!)).toBeLessThan(1e-9);
+  });
+});
+
+describe("a system curve that jumps across the pump's head (Darcy friction at Re 2000: 64/Re, then Colebrook)", () => {
+  // Invented: an oil of ν = 6.4e-5 m²/s in 200 m of 100 mm pipe after 5 m static. Re = 2000 at Q = 2000·ν·π·D/4.
+  const fluid = customFluid("oil", 900, 0.0576, 1000);
+  const sys = prepareSystem({ fluid, staticHead: 5, discharge: [{ length: 200, diameter: 0.1, roughness: 0.045e-3 }] });
+  const h = systemHeadFunction(sys);
+  const qJump = (2000 * 6.4e-5 * Math.PI * 0.1) / 4;
+  const below = h(qJump * 0.9999), above = h(qJump * 1.0001);
+  const line = (mid: number) => createPumpCurve({ points: [{ flow: 0, head: mid + 3 }, { flow: 2 * qJump, head: mid - 3 }] });
+
+  it("the step is real (definition: f = 64/Re below 2000, Colebrook above): about 10.3 m to 13.3 m here", () => {
+    expect(above - below).toBeGreaterThan(2.5);
+  });
+  it("a pump head inside the step: the point is kept, with a warning naming both heads; the curves do not meet there", () => {
+    const op = solveOperatingPoint(line((below + above) / 2), h);
+    expect(op.flow! / qJump).toBeCloseTo(1, 6);
+    const w = op.warnings.find((x) => x.code === "system-curve-jump");
+    expect(w, "jump warning").toBeDefined();
+    expect(inSI(w!.message)).toMatch(/^the pump and system curves do not meet at 36\.2 m³\/h: the system's head jumps there from 10\.3\d? m to 13\.3\d? m/);
+  });
+  it("a pump head clear of the step crosses the curve: no jump warning (the flip)", () => {
+    const op = solveOperatingPoint(line(above + 1), h);
+    expect(Math.abs(op.head! - h(op.flow!))).toBeLessThan(1e-6);
+    expect(op.warnings.map((x) => x.code)).not.toContain("system-curve-jump");
   });
 });

@@ -11,6 +11,8 @@
  *   static head), and the curves never meet;
  * - `beyond-curve-end`: pump head still exceeds system head at the last point — the pump
  *   would run out past the end of its published curve.
+ * A reported point where the curves do not actually meet (the system curve jumps across the pump's head,
+ * as Darcy friction does at Re 2000) carries the warning `system-curve-jump` with both heads.
  */
 import { EngineInputError, requireFinite, requireFiniteResult, type EngineWarning } from "./errors.ts";
 import { evalCubic } from "./interp.ts";
@@ -120,6 +122,16 @@ function solveInner(
   }
   const chosen = roots[roots.length - 1];
   const op = points[points.length - 1];
+  // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re
+  // to the turbulent correlation at Re 2000, see headLoss.ts), and the pump's head lies inside the step. The
+  // curves never meet; the flow there is unsettled. Said with the numbers, the point kept (the best estimate).
+  const hSys = (q: number) => systemHead(q);
+  const residual = Math.abs(op.head - hSys(op.flow));
+  if (residual > 1e-6 * Math.max(1, Math.abs(op.head))) {
+    const d = Math.max(op.flow * 1e-9, 1e-15);
+    warnings.push({ code: "system-curve-jump",
+      message: `the pump and system curves do not meet at ${qt("flow", op.flow)}: the system's head jumps there from ${qt("head", hSys(op.flow - d))} to ${qt("head", hSys(op.flow + d))} (friction at the laminar–turbulent change) and the pump's ${qt("head", op.head)} lies between; the flow will not settle steadily near this point` });
+  }
   if (op.flow >= c.flowMax * 0.98 && c.flowMax > 0) {
     warnings.push({ code: "near-curve-end", message: "operating point is at the far end of the published curve (runout)" });
   }
