@@ -9,7 +9,7 @@ import { demoSystems } from "~/cli/demo-systems";
 import { systemSpec } from "./hydraulics";
 
 const curves = demoCurveInputs().map((d) => ({ id: d.id, c: createPumpCurve(d.curve) }));
-const MODES: ControlMode[] = ["constant-pressure", "proportional-pressure", "system-curve"];
+const MODES = ["constant-pressure", "proportional-pressure", "system-curve"] as const satisfies readonly ControlMode[];
 // The circulator profile plus a light step (10 %), where an open system's static head matters most.
 const profile = [...defaultCirculatorProfile(4000), { flowFraction: 0.1, hours: 400 }];
 
