@@ -7,18 +7,10 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CandidateEnergyPanel, energyRows } from "./CandidateEnergy";
 import { SelectionEnergy } from "./SelectionEnergy";
-import { candidateEnergy } from "~/lib/projects/energy";
-import { defaultSystemInput, fluidOf, systemSpec, type SystemInput } from "~/lib/projects/hydraulics";
+import { fixtureEnergy as energyOf } from "~/lib/projects/energy-fixture";
+import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { SI_UNITS } from "~/lib/shared/units";
 
-const M3H = 1 / 3600;
-// An invented pump near the default system's duty (36 m³/h at 15 m): flow m³/h, head m, efficiency.
-const curve = [[5, 21.8, 0.3], [10, 21.5, 0.45], [20, 20, 0.62], [30, 17.5, 0.72], [36, 15.5, 0.74], [45, 12, 0.7], [55, 7, 0.6]].map(([q, h, e]) => ({ flow: q * M3H, head: h, efficiency: e, power: null, npshr: null }));
-const evaluated = { adjustment: { method: "none" as const, arrangement: "single" as const, dutyPumps: 1 }, result: { ratio: 1, curve, operating: { flow: 36.5 * M3H, head: 15.3 }, figures: { motor: { rating: 3000, efficiency: 0.87 } } } };
-const energyOf = (o: Partial<SystemInput>) => {
-  const input = { ...defaultSystemInput(), ...o };
-  return candidateEnergy(input, systemSpec(input), fluidOf(input).density, evaluated, 250000);
-};
 // Fixed speed, throttled: at 150 % of 36 m³/h (54 m³/h) the pump gives about 7.6 m, below the open system's ≥ 12 m static head: not met.
 const steps = (over: number) => [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 2000 }, { flowFraction: 1.5, hours: over }];
 const withProfile = (over: number) => energyOf({ energy: { ...defaultSystemInput().energy!, profile: steps(over) } });

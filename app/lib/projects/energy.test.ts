@@ -3,18 +3,10 @@
 // Check values: LCC from the engine's lifeCycleCost (its hand calculations in app/engine/lifeCycleCost.test.ts).
 import { describe, expect, it } from "vitest";
 import { lifeCycleCost } from "~/engine";
-import { candidateEnergy } from "./energy";
-import { defaultSystemInput, fluidOf, systemSpec, type SystemInput } from "./hydraulics";
+import { fixtureEnergy as energyOf } from "./energy-fixture";
+import { defaultSystemInput } from "./hydraulics";
 import { motorFigures } from "./candidate-judgement";
 
-const M3H = 1 / 3600;
-// An invented pump near the default system's duty (36 m³/h at 15 m): flow m³/h, head m, efficiency.
-const curve = [[5, 21.8, 0.3], [10, 21.5, 0.45], [20, 20, 0.62], [30, 17.5, 0.72], [36, 15.5, 0.74], [45, 12, 0.7], [55, 7, 0.6]].map(([q, h, e]) => ({ flow: q * M3H, head: h, efficiency: e, power: null, npshr: null }));
-const evaluated = { adjustment: { method: "none" as const, arrangement: "single" as const, dutyPumps: 1 }, result: { ratio: 1, curve, operating: { flow: 36.5 * M3H, head: 15.3 }, figures: { motor: { rating: 3000, efficiency: 0.87 } } } };
-const energyOf = (o: Partial<SystemInput>) => {
-  const input = { ...defaultSystemInput(), ...o };
-  return candidateEnergy(input, systemSpec(input), fluidOf(input).density, evaluated, 250000);
-};
 
 describe("energy cost with hours or tariff not given", () => {
   it("4000 h at 0.2 per kWh: energy cost and life-cycle cost given, nothing missing", () => {
