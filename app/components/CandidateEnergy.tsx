@@ -9,11 +9,34 @@ type Cand = { id: number; label: string; energy?: Energy | null };
 
 export const moneyText = (x: number | null | undefined, currency: string) => (x == null || !Number.isFinite(x) ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
 
+/**
+ * The mark beside every energy total and life-cycle cost built on a cycle with unmet steps (their energy is missing,
+ * so the figure is too low and not comparable with a complete one): "" when the cycle is complete.
+ */
+export function incompleteMark(cycle: Energy["cycle"] | undefined): string {
+  if (!cycle || cycle.complete) return "";
+  const notMet = cycle.steps.filter((s) => s.status !== "ok" && s.hours > 0).length;
+  return ` (incomplete: ${notMet} of ${cycle.steps.length} steps not met)`;
+}
+
+/** The cycle's energy per year as shown in the table and the printed report, marked when incomplete or when no hours are given. */
+export function cycleEnergyText(e: Energy | null | undefined): string {
+  if (!e?.cycle) return e?.cycleError ?? "—";
+  if (e.cycle.totalHours === 0) return "— (no operating hours given)";
+  return `${fmtNum(e.cycle.annualEnergyKWh, 0)} kWh${incompleteMark(e.cycle)}`;
+}
+
+/** The life-cycle cost as one line: its total and years, marked when incomplete; why there is none when hours or tariff are not given. */
+export function lccText(e: Energy | null | undefined, currency: string): string {
+  if (e?.lcc) return `${moneyText(e.lcc.total, currency)} over ${e.lcc.yearly.length} years${incompleteMark(e.cycle)}`;
+  return e?.costMissing ? `— (${e.costMissing})` : "—";
+}
+
 /** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
 export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
-  ["Energy per year over the duty cycle", (c) => (c.energy?.cycle ? `${fmtNum(c.energy.cycle.annualEnergyKWh, 0)} kWh${c.energy.cycle.complete ? "" : " (incomplete)"}` : c.energy?.cycleError ?? "—")],
+  ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy)],
   ["Purchase price", (c) => moneyText(c.energy?.purchasePrice, currency)],
-  ["Life-cycle cost (present value)", (c) => (c.energy?.lcc ? `${moneyText(c.energy.lcc.total, currency)} over ${c.energy.lcc.yearly.length} years` : "—")],
+  ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
 ];
 
 export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
@@ -35,7 +58,7 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       <LifeCycleChart
         title="Cumulative life-cycle cost (present value) by year"
         currency={currency}
-        series={candidates.filter((c) => c.energy?.lcc).map((c, i) => ({ id: c.id, label: `${i + 1} ${c.label}`, cumulative: c.energy!.lcc!.cumulative }))}
+        series={candidates.flatMap((c, i) => (c.energy?.lcc ? [{ id: c.id, label: `${i + 1} ${c.label}${incompleteMark(c.energy.cycle)}`, cumulative: c.energy.lcc.cumulative }] : []))}
       />
       {first ? (
         <ul className="list-disc pl-5 text-xs text-slate-600">
@@ -58,6 +81,11 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
         {c.label}
       </h3>
       {!e ? <p className="text-xs text-slate-600">Not computed.</p> : e.cycleError ? <p className="text-xs text-duty-ink">{e.cycleError}.</p> : null}
+      {e?.costMissing ? (
+        <p className="text-xs text-duty-ink" data-testid={`cost-missing-${c.id}`}>
+          ▲ {e.costMissing}: no energy cost counted and no life-cycle cost.
+        </p>
+      ) : null}
       {e?.cycle ? (
         <div className="overflow-x-auto">
           <table className="w-full text-xs" aria-label={`Duty cycle of ${c.label}`}>
@@ -96,11 +124,11 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
               ))}
               <tr className="border-t border-slate-300 font-semibold">
                 <td colSpan={9} className="pr-2">
-                  Total per year{e.cycle.complete ? "" : " (steps the pump cannot meet are missing)"}
+                  Total per year{e.cycle.complete ? "" : `${incompleteMark(e.cycle)}: their energy is missing`}
                 </td>
                 <td className="pr-2">{fmtNum(e.cycle.totalHours, 0)}</td>
                 <td className="pr-2" data-testid={`cycle-total-${c.id}`}>
-                  {fmtNum(e.cycle.annualEnergyKWh, 0)} kWh · {moneyText(e.annualCost, currency)}
+                  {e.cycle.totalHours === 0 ? "—" : `${fmtNum(e.cycle.annualEnergyKWh, 0)} kWh · ${moneyText(e.annualCost, currency)}`}
                 </td>
               </tr>
             </tbody>
@@ -110,7 +138,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
       {e?.lcc ? (
         <p className="text-xs" data-testid={`lcc-${c.id}`}>
           Life-cycle cost over {e.lcc.yearly.length} years: <strong>{moneyText(e.lcc.total, currency)}</strong> = purchase {e.lcc.purchaseGiven ? moneyText(e.lcc.purchase, currency) : "not given (0)"} + energy {moneyText(e.lcc.energyPresentValue, currency)} (present value)
-          {e.cycle && !e.cycle.complete ? " — understated: part of the cycle is missing" : ""}.
+          {e.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
         </p>
       ) : null}
       {canWrite ? (

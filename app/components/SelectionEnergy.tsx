@@ -1,6 +1,6 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
 import type { CandidateEnergy } from "~/lib/projects/energy";
-import { CandidateCycle } from "~/components/CandidateEnergy";
+import { CandidateCycle, cycleEnergyText, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import type { UnitChoice } from "~/lib/shared/units";
 
@@ -17,12 +17,13 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; 
       </p>
       {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
       <p className="hidden text-xs print:block">
-        {e.cycle ? `${Math.round(e.cycle.annualEnergyKWh)} kWh per year over ${e.cycle.steps.length} steps${e.cycle.complete ? "" : " (incomplete)"}` : e.cycleError}
-        {e.lcc ? `; life-cycle cost over ${e.lcc.yearly.length} years ${Math.round(e.lcc.total)} ${currency} (present value; ${e.lcc.source})` : ""}.
+        {e.cycle ? `Energy per year over ${e.cycle.steps.length} steps: ${cycleEnergyText(e)}` : e.cycleError}
+        {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
+        {e.lcc ? ` (${e.lcc.source})` : ""}.
       </p>
       <div className="no-print space-y-2">
         <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
-        {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: c.label, cumulative: e.lcc.cumulative }]} /> : null}
+        {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: `${c.label}${incompleteMark(e.cycle)}`, cumulative: e.lcc.cumulative }]} /> : null}
         <ul className="list-disc pl-5 text-xs text-slate-600">
           {e.assumptions.map((a) => (
             <li key={a}>{a}</li>

@@ -77,6 +77,46 @@ describe("duty-cycle energy against a hand calculation", () => {
   });
 });
 
+describe("a control curve below the system curve: the step is not met", () => {
+  // Open system through the design point: H = 12 m static + 6 m × (Q / 10 m³/h)², so H_set = 18 m.
+  // Proportional pressure asks 18 × (0.5 + 0.5 f) = 9 + 9 f; the system needs 12 + 6 f². They cross where
+  // 2f² − 3f + 1 = 0, at f = 0.5 and f = 1 (hand algebra): below 50 % flow the control curve lies under the system curve.
+  const open = (q: number) => 12 + 6 * (q / qd) ** 2;
+  const run = (mode: DutyCycleInput["mode"], flowFraction: number) =>
+    dutyCycleEnergy({ ...base, systemHead: open, mode, driveEfficiency: 0.97, profile: [{ flowFraction, hours: 1000 }] });
+
+  it("at 25 % flow proportional pressure asks 11.25 m where the system needs 12.375 m: not met, the numbers and the remedy given", () => {
+    const r = run("proportional-pressure", 0.25);
+    expect(r.steps[0].status).toBe("control-below-system");
+    expect(r.steps[0].energyKWh).toBeNull();
+    expect(r.complete).toBe(false);
+    expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
+    // 18 × (0.5 + 0.5 × 0.25) = 11.25 m; 12 + 6 × 0.25² = 12.375 m (hand calculation)
+    expect(r.steps[0].message).toMatch(/⟦head\|11\.25⟧ at ⟦flow\|[^⟧]+⟧ but the system needs ⟦head\|12\.375⟧/);
+    expect(r.steps[0].message).toMatch(/raise the set point.*system-curve control/);
+  });
+
+  it("flips between met and not met exactly where the control head equals the system head (f = 0.5)", () => {
+    expect(run("proportional-pressure", 0.5).steps[0].status).toBe("ok"); // 13.5 m both (hand calculation)
+    expect(run("proportional-pressure", 0.5).steps[0].head).toBeCloseTo(13.5, 9);
+    expect(run("proportional-pressure", 0.5 + 1e-6).steps[0].status).toBe("ok");
+    expect(run("proportional-pressure", 0.5 - 1e-6).steps[0].status).toBe("control-below-system");
+    expect(run("proportional-pressure", 0.75).steps[0].status).toBe("ok"); // 15.75 m asked ≥ 15.375 m needed
+    // Constant pressure holds 18 m ≥ the system's head at every flow up to the design flow: met throughout.
+    for (const f of [0.25, 0.5 - 1e-6, 0.75, 1]) expect(run("constant-pressure", f).steps[0].status).toBe("ok");
+    // System-curve control asks exactly the system's head: never below it.
+    expect(run("system-curve", 0.25).steps[0].status).toBe("ok");
+  });
+
+  it("no step reported as met runs below the system's head, in any controlled mode", () => {
+    for (const mode of ["constant-pressure", "proportional-pressure", "system-curve"] as const)
+      for (let f = 0.05; f <= 1.0001; f += 0.05) {
+        const s = run(mode, f).steps[0];
+        if (s.status === "ok") expect(s.head!).toBeGreaterThanOrEqual(open(s.flow) * (1 - 1e-9));
+      }
+  });
+});
+
 describe("duty-cycle edges", () => {
   it("a step beyond the pump's curve end is not computed and the total says it is incomplete", () => {
     // 150 % of 10 m³/h = 15 m³/h: the system needs 18 × 1.5² = 40.5 m, the pump gives 15.5 m.

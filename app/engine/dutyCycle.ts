@@ -15,6 +15,16 @@
  *   with H_set = the system's head at the design flow. Speed by the affinity laws (Q ∝ N, H ∝ N²,
  *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %. A step
  *   that would need less than the lowest speed runs at the lowest speed, throttled (common practice).
+ *   Where the control curve asks less head than the system needs at the step's flow (an open system whose
+ *   static head lies above 0.5 · H_set under proportional pressure, or any step above the design flow), the
+ *   step is NOT met (status `control-below-system`): a differential-pressure controller holds the pump on its
+ *   control curve and the flow settles where that curve crosses the system curve, below the demanded flow; the
+ *   controller does not add head to reach it. Common practice (pump makers' control-mode guidance, from memory):
+ *   proportional pressure suits circuits whose head is mostly friction; with a large static head or a high
+ *   minimum differential, raise the set point or control on the system curve (or constant pressure). Running
+ *   such a step at max(control head, system head) instead would price a controller that is not the mode chosen.
+ *   Hence, step by step where all are met, energy: constant pressure ≥ proportional pressure ≥ system curve;
+ *   a step not met drops out of the total (`complete` false), so compare totals only when complete.
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -87,7 +97,7 @@ export const MOTOR_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.
 export const DRIVE_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.88], [0.25, 0.95], [0.5, 0.985], [0.75, 0.995], [1, 1]];
 export const PART_LOAD_SOURCE = "motor and drive part-load factors: common practice assumption (from memory of typical IE3 motor and PWM drive part-load data; check the makers' data)";
 
-export type StepStatus = "ok" | "beyond-curve" | "below-speed-range" | "no-power-data";
+export type StepStatus = "ok" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
 export interface StepResult {
   flowFraction: number;
@@ -204,6 +214,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       const f = q / qDesign;
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
       if (!(head > 0)) return none("beyond-curve", `the control asks for ${qt("head", head)} at ${qt("flow", q)}: no pumping needed at this step`);
+      if (mode !== "system-curve") {
+        // The control curve below the system curve at this flow: not met (see the module comment for why not max(control, system)).
+        const hSys = requireFinite("systemHead", input.systemHead(q));
+        if (head < hSys * (1 - 1e-9)) {
+          const fix = mode === "proportional-pressure" ? "raise the set point, or use constant-pressure or system-curve control" : "raise the set point or use system-curve control";
+          return none("control-below-system", `the control curve gives ${qt("head", head)} at ${qt("flow", q)} but the system needs ${qt("head", hSys)} there: the flow cannot reach this step on this control curve — ${fix}`, head);
+        }
+      }
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
@@ -240,7 +258,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     };
   });
   const complete = steps.every((s) => s.status === "ok" || s.hours === 0);
-  if (!complete) warnings.push({ code: "cycle-incomplete", message: "some steps with running hours cannot be met by this pump: their energy is missing from the total" });
+  if (!complete) warnings.push({ code: "cycle-incomplete", message: "some steps with running hours cannot be met by this pump or on this control curve: their energy is missing from the total" });
   const annualEnergyKWh = steps.reduce((sum, s) => sum + (s.energyKWh ?? 0), 0);
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

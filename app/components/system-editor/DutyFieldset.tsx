@@ -15,8 +15,8 @@ export function DutyFieldset({ f, errors, unitSystem, currency, dutyCheck }: Fie
         <In label="Head" unit={u("head")} name="dutyHead" def={f.dutyHead} errors={errors} />
         <In label="Largest flow drawn" unit={u("flow")} name="flowMax" def={f.flowMax} errors={errors} hint="Blank: from the duty and pumps" />
         <In label="NPSH margin ratio" name="npshMargin" def={f.npshMargin} errors={errors} hint="NPSHa/NPSHr wanted, 1.1–2.5 by application (ANSI/HI 9.6.1)" />
-        <In label="Operating hours per year" unit="h" name="hoursPerYear" def={f.hoursPerYear} errors={errors} />
-        <In label="Energy tariff" unit={`${currency} per kWh`} name="tariffPerKWh" def={f.tariffPerKWh} errors={errors} hint="Workspace currency (set on the workspace page)" />
+        <In label="Operating hours per year" unit="h" name="hoursPerYear" def={f.hoursPerYear} errors={errors} hint="Blank or 0: not given (no energy cost, no life-cycle cost)" />
+        <In label="Energy tariff" unit={`${currency} per kWh`} name="tariffPerKWh" def={f.tariffPerKWh} errors={errors} hint="Workspace currency (set on the workspace page); blank or 0: not given" />
         <In label="Flow tolerance below the duty" unit="%" name="tolMinus" def={f.tolMinus} errors={errors} hint="Verdict: the pump must deliver at least the duty flow less this" />
         <In label="Flow tolerance above the duty" unit="%" name="tolPlus" def={f.tolPlus} errors={errors} hint="More than this above the duty: oversized" />
       </div>

@@ -238,7 +238,7 @@ export function motorFigures(o: {
     driveSource: drive != null ? "variable-speed drive 97 % (common practice, from memory)" : null,
     electricalPower: energy?.electricalPower ?? null,
     annualEnergyKWh: o.hoursPerYear > 0 ? (energy?.annualEnergyKWh ?? null) : null,
-    annualCost: o.hoursPerYear > 0 ? (energy?.annualCost ?? null) : null,
+    annualCost: o.hoursPerYear > 0 && o.tariffPerKWh > 0 ? (energy?.annualCost ?? null) : null, // 0 per kWh: tariff not given
     currency: o.currency,
     warnings,
   };

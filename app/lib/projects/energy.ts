@@ -76,6 +76,11 @@ export type CandidateEnergy = {
   annualCost: number | null;
   purchasePrice: number | null;
   lcc: LifeCycleResult | null;
+  /**
+   * What is not given for an energy cost (blank or 0 operating hours, blank or 0 tariff), or null. When set, no
+   * energy cost is counted and no life-cycle cost is given. Absent in selections frozen before 2026-12-02.
+   */
+  costMissing?: string | null;
   assumptions: string[];
 };
 
@@ -116,6 +121,7 @@ export function candidateEnergy(
     annualCost: null,
     purchasePrice,
     lcc: null,
+    costMissing: null,
     assumptions: [
       "Affinity laws for speed (Q ∝ N, H ∝ N², P ∝ N³; pump efficiency constant along the affinity parabola).",
       `Motor and drive losses at part load: ${PART_LOAD_SOURCE}.`,
@@ -147,8 +153,17 @@ export function candidateEnergy(
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
       const sysHead = systemHeadFunction(prepareSystem(systemSpec));
       out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM }, driveEfficiency: drive });
-      out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
-      out.lcc = lifeCycleCost({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
+      // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
+      // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
+      const missing = [
+        out.cycle.totalHours > 0 ? null : prof.source === "common-practice" ? "no operating hours given (blank or 0 h per year)" : "the load profile's steps have no hours",
+        input.tariffPerKWh > 0 ? null : "no energy tariff given (blank or 0 per kWh)",
+      ].filter((x): x is string => x !== null);
+      out.costMissing = missing.length > 0 ? missing.join("; ") : null;
+      if (out.costMissing === null) {
+        out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
+        out.lcc = lifeCycleCost({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
+      }
     } catch (e) {
       if (!(e instanceof EngineInputError)) throw e;
       out.cycleError = e.message;
