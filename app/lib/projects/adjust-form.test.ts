@@ -28,7 +28,8 @@ describe("readAdjustForm", () => {
     expect(readAdjustForm(form({ ...base, motorRating: "-5" }), US_UNITS).error).toBe("The motor rating must be 0 or more (blank or 0: suggested).");
     expect(readAdjustForm(form({ ...base, motorRating: "0" }), US_UNITS).adjustment?.motorRating).toBe(0); // 0 is "suggested", as blank
     expect(readAdjustForm(form({ ...base, serviceFactor: "abc" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor must be a number." });
-    expect(readAdjustForm(form({ ...base, serviceFactor: "0" }), SI_UNITS).adjustment).toBeNull(); // below 1: the schema refuses it
+    expect(readAdjustForm(form({ ...base, serviceFactor: "0" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor is 1 to 1.5." }); // below 1: the schema refuses it
+    expect(readAdjustForm(form({ ...base, dutyPumps: "2,5" }), SI_UNITS).error).toBe("The number of duty pumps is a whole number from 1 to 8.");
     expect(readAdjustForm(form({ ...base, serviceFactor: "" }), SI_UNITS).adjustment?.serviceFactor).toBe(1);
     // Two bad fields: a message for each.
     expect(readAdjustForm(form({ ...base, motorRating: "abc", serviceFactor: "x" }), SI_UNITS).error).toBe("The motor rating must be a number. The service factor must be a number.");
