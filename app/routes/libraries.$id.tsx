@@ -20,6 +20,7 @@ import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
 import { fmtUtc, fmtInt } from "~/lib/shared/format";
 import { pageOf } from "~/lib/shared/paging";
+import { decimalOrNaN } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
@@ -52,7 +53,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sys = m.user.units;
   const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
   const numIn = (k: "flow" | "head", q: "flow" | "head") => {
-    const x = Number(qp(k).replace(",", "."));
+    const x = decimalOrNaN(qp(k)); // the forms' strict reader: junk or an ambiguous 1,500 means no filter
     return Number.isFinite(x) && x > 0 ? fromChosen(sys, q, x) : undefined;
   };
   const sort = qp("sort");

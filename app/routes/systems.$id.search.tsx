@@ -13,6 +13,7 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
+import { decimalOrNaN } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
@@ -35,7 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sys = m.user.units;
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
-  const maxPower = Number(q("maxPower").replace(",", "."));
+  const maxPower = decimalOrNaN(q("maxPower")); // the forms' strict reader: junk or an ambiguous 1,500 means no filter
   const speed = Number(q("speed"));
   const methods = query.method.filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
   const filters = {

@@ -81,8 +81,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "price": {
       const candidateId = formId(form, "candidateId");
-      const cents = readPriceCents(form.get("purchasePrice"));
-      if (cents === undefined) return { errors: { [`price.${candidateId}`]: "The purchase price is a number ≥ 0 (blank clears it)." }, notice: null };
+      const { cents, error } = readPriceCents(form.get("purchasePrice"));
+      if (cents === undefined) return { errors: { [`price.${candidateId}`]: error }, notice: null };
       await setCandidatePrice(viewer, candidateId, cents);
       return { errors: {}, notice: cents === null ? "Purchase price cleared." : "Purchase price set." };
     }

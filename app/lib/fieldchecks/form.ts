@@ -2,6 +2,7 @@
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
 import { fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
+import { decimalField } from "../shared/decimal";
 import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
@@ -144,16 +145,9 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
   };
   /** A number in `unit` → SI; required unless `optional`; bounds in SI. */
   const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean } = {}): number | null => {
-    const s = (f[key] ?? "").replace(",", ".");
-    if (s === "") {
-      if (!opts.optional) errors[key] = `Enter ${label}.`;
-      return null;
-    }
-    if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(s)) {
-      errors[key] = `${capital(label)} must be a number.`;
-      return null;
-    }
-    const x = Number(s);
+    // The forms' strict reader (shared/decimal.ts): a decimal point or comma; 1,500 refused as ambiguous.
+    const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
+    if (x === null) return null;
     const si = q ? toSI(q, unit, x) : x;
     if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
       errors[key] = `${capital(label)} is too low: check the value and its unit.`;

@@ -8,10 +8,11 @@
  * Anything else (units inside the cell, "n/a", "12.x") is NaN.
  */
 
+import { COMMA_DECIMAL, DOT_DECIMAL } from "../shared/decimal";
+
+// One decimal number (DOT_DECIMAL, COMMA_DECIMAL) is the forms' grammar too (shared/decimal.ts); cells add thousands groups.
 const SPACES = /[\s\u00a0\u202f\u2009]+/g;
-const DOT_DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DOT_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:,\d{3})+(?:\.\d+)?$/;
-const COMMA_DECIMAL = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 const COMMA_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:\.\d{3})+(?:,\d+)?$/;
 
 export function parseNumber(raw: string, decimalComma: boolean): number {

@@ -32,14 +32,19 @@ describe("mappingFromForm", () => {
   it("refuses an unknown field name for a column", () => {
     expect(mappingFromForm(form({ "field.0": "colour" })).error).toMatch(/cannot work/);
   });
-  it("reads defaults with a decimal comma; NaN, zero and negative numbers are left out", () => {
+  it("reads defaults with a decimal comma; blank is none; NaN, zero, negative, ambiguous and junk are errors naming the field (product rule: never a silent default)", () => {
     const m = mappingFromForm(form({ defaultModel: "  KX-80 ", defaultSpeed: "2900,5", defaultImpeller: "190" })).mapping!;
     expect(m.defaults).toMatchObject({ model: "KX-80", speed: 2900.5, impeller: 190, impellerUnit: "mm" });
-    for (const bad of ["NaN", "0", "-5", "Infinity", "abc"]) {
-      const d = mappingFromForm(form({ defaultSpeed: bad, defaultImpeller: bad })).mapping!.defaults;
-      expect(d.speed, bad).toBeUndefined();
-      expect(d.impeller, bad).toBeUndefined();
+    const none = mappingFromForm(form({ defaultSpeed: " ", defaultImpeller: "" })).mapping!.defaults;
+    expect(none.speed).toBeUndefined();
+    expect(none.impeller).toBeUndefined();
+    for (const bad of ["NaN", "0", "-5", "Infinity", "abc", "0x10"]) {
+      const r = mappingFromForm(form({ defaultSpeed: bad, defaultImpeller: bad }));
+      expect(r.mapping, bad).toBeUndefined();
+      expect(r.error, bad).toMatch(/^The default speed .*\. The default impeller .*\.$/);
     }
+    expect(mappingFromForm(form({ defaultSpeed: "1,450" })).error).toBe("The default speed “1,450” is ambiguous (a thousands comma or a decimal comma?): write 1450, or 1.45.");
+    expect(mappingFromForm(form({ defaultSpeed: "1450" })).mapping!.defaults.speed).toBe(1450);
   });
   it("policy and encoding: only the known values", () => {
     expect(mappingFromForm(form({ policy: "drop-points" })).mapping!.policy).toBe("drop-points");

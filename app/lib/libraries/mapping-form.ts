@@ -2,6 +2,7 @@
 // user's field and unit per column, layout, defaults, fill-down, run-out policy and encoding; and the
 // fix grid's edited cells. Anything unreadable is an error message, never an exception.
 import * as v from "valibot";
+import { decimalField } from "../shared/decimal";
 import { DIAMETER_UNITS, encodingNamed, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
 
 /** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
@@ -35,13 +36,21 @@ export function mappingFromForm(form: FormData): { mapping?: Mapping; error?: st
     return { ...c, field, unit, unitSource: changed ? "user" : c.unitSource, block: m.layout === "wide" ? c.block : null };
   });
   const model = String(form.get("defaultModel") ?? "").trim();
-  const speed = Number(String(form.get("defaultSpeed") ?? "").replace(",", ".") || NaN);
-  const impeller = Number(String(form.get("defaultImpeller") ?? "").replace(",", ".") || NaN);
+  // Default speed and impeller: blank is none; anything else is a number above 0 (the forms' strict reader, shared/decimal.ts).
+  const errors: Record<string, string> = {};
+  const positive = (key: string, label: string) => {
+    const x = decimalField(form.get(key), key, `the ${label}`, errors);
+    if (x !== null && !(x > 0)) errors[key] ??= `The ${label} must be above 0 (blank: none).`;
+    return x !== null && x > 0 ? x : undefined;
+  };
+  const speed = positive("defaultSpeed", "default speed");
+  const impeller = positive("defaultImpeller", "default impeller");
+  if (Object.keys(errors).length) return { error: Object.values(errors).join(" ") };
   const fluid = String(form.get("fluid") ?? "").trim().slice(0, 120);
   m.defaults = {
     model: model || undefined,
-    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    ...(Number.isFinite(impeller) && impeller > 0 ? { impeller, impellerUnit: impellerUnitOf(form.get("defaultImpellerUnit")) } : {}),
+    speed,
+    ...(impeller !== undefined ? { impeller, impellerUnit: impellerUnitOf(form.get("defaultImpellerUnit")) } : {}),
     fluid: fluid || undefined,
   };
   m.fillDownModel = form.get("fillDownModel") === "on";

@@ -23,6 +23,23 @@ describe("readAdjustForm", () => {
     expect(readAdjustForm(form({ ...base, ratio: "120" }), SI_UNITS).adjustment?.ratio).toBeCloseTo(1.2, 12);
     expect(readAdjustForm(form({ ...base, ratio: "120.1" }), SI_UNITS).adjustment).toBeNull();
   });
+  it("a bad motor rating or service factor is an error naming the field, never the default (product rule)", () => {
+    expect(readAdjustForm(form({ ...base, motorRating: "abc" }), US_UNITS)).toEqual({ adjustment: null, error: "The motor rating must be a number." });
+    expect(readAdjustForm(form({ ...base, motorRating: "-5" }), US_UNITS).error).toBe("The motor rating must be 0 or more (blank or 0: suggested).");
+    expect(readAdjustForm(form({ ...base, motorRating: "0" }), US_UNITS).adjustment?.motorRating).toBe(0); // 0 is "suggested", as blank
+    expect(readAdjustForm(form({ ...base, serviceFactor: "abc" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor must be a number." });
+    expect(readAdjustForm(form({ ...base, serviceFactor: "0" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor is 1 to 1.5." }); // below 1: the schema refuses it
+    expect(readAdjustForm(form({ ...base, dutyPumps: "2,5" }), SI_UNITS).error).toBe("The number of duty pumps is a whole number from 1 to 8.");
+    expect(readAdjustForm(form({ ...base, serviceFactor: "" }), SI_UNITS).adjustment?.serviceFactor).toBe(1);
+    // Two bad fields: a message for each.
+    expect(readAdjustForm(form({ ...base, motorRating: "abc", serviceFactor: "x" }), SI_UNITS).error).toBe("The motor rating must be a number. The service factor must be a number.");
+  });
+  it("refuses 1,000 hp as ambiguous and says how to write it; 1000 is 1000 hp", () => {
+    expect(readAdjustForm(form({ ...base, motorRating: "1,000" }), US_UNITS).error).toBe("The motor rating “1,000” is ambiguous (a thousands comma or a decimal comma?): write 1000, or 1.");
+    // 1 hp = 745.69987158227 W (NIST SP 811)
+    expect(readAdjustForm(form({ ...base, motorRating: "1000" }), US_UNITS).adjustment?.motorRating).toBeCloseTo(745699.87158227, 4);
+    expect(readAdjustForm(form({ ...base, ratio: "0x50" }), SI_UNITS).error).toBe("The ratio must be a number.");
+  });
   it("refuses an unknown method, NaN and Infinity", () => {
     expect(readAdjustForm(form({ ...base, method: "magic" }), SI_UNITS).adjustment).toBeNull();
     expect(readAdjustForm(form({ ...base, ratio: "NaN" }), SI_UNITS).adjustment).toBeNull();

@@ -3,16 +3,21 @@
 import * as v from "valibot";
 import { DEFAULT_IE_CLASS, IE_CLASSES, type PumpPoint } from "~/engine";
 
+// Messages name the field and its range as the adjustment form shows it (the ratio in percent).
+const RATIO = "The ratio is 30 % to 120 % (blank: solve for the duty).";
+const DUTY = "The number of duty pumps is a whole number from 1 to 8.";
+const STANDBY = "The number of standby pumps is a whole number from 0 to 8.";
+const SERVICE_FACTOR = "The service factor is 1 to 1.5.";
 export const AdjustmentSchema = v.object({
   method: v.picklist(["none", "speed", "trim"]),
   /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁; null: solve it to hit the duty. */
-  ratio: v.nullable(v.pipe(v.number(), v.finite(), v.minValue(0.3), v.maxValue(1.2))),
+  ratio: v.nullable(v.pipe(v.number(), v.finite(), v.minValue(0.3, RATIO), v.maxValue(1.2, RATIO))),
   arrangement: v.picklist(["single", "parallel", "series"]),
-  dutyPumps: v.pipe(v.number(), v.integer(), v.minValue(1), v.maxValue(8)),
-  standbyPumps: v.pipe(v.number(), v.integer(), v.minValue(0), v.maxValue(8)),
+  dutyPumps: v.pipe(v.number(), v.integer(DUTY), v.minValue(1, DUTY), v.maxValue(8, DUTY)),
+  standbyPumps: v.pipe(v.number(), v.integer(STANDBY), v.minValue(0, STANDBY), v.maxValue(8, STANDBY)),
   /** Motor rating W (0: not set) and service factor. */
   motorRating: v.pipe(v.number(), v.finite(), v.minValue(0)),
-  serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1), v.maxValue(1.5)),
+  serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1, SERVICE_FACTOR), v.maxValue(1.5, SERVICE_FACTOR)),
   /** Motor efficiency class (IEC 60034-30-1); adjustments stored before it parse as IE3. */
   ieClass: v.optional(v.picklist(IE_CLASSES), DEFAULT_IE_CLASS),
 });

@@ -1,19 +1,12 @@
 // The editor's load-profile, control and life-cycle fields ↔ the system document's `energy` part.
 // Percent in the form, fractions in the document; hours per year as typed. Pure (browser and server).
+import { decimalField } from "../shared/decimal";
 import { DEFAULT_ENERGY_SETTINGS, MAX_PROFILE_STEPS, type EnergySettings } from "./energy";
 
 type FormLike = { get(name: string): FormDataEntryValue | null };
 
-function read(f: FormLike, key: string, errors: Record<string, string>, label: string): number | null {
-  const raw = (f.get(key) ?? "").toString().trim().replace(",", ".");
-  if (raw === "") return null;
-  const n = Number(raw);
-  if (!Number.isFinite(n)) {
-    errors[key] = `${label} must be a number.`;
-    return null;
-  }
-  return n;
-}
+/** A number, or null for blank or bad text (bad text: its message under `key`; the forms' strict reader, shared/decimal.ts). */
+const read = (f: FormLike, key: string, errors: Record<string, string>, label: string): number | null => decimalField(f.get(key), key, label, errors);
 
 /**
  * Reads the energy fields. A form without them (an older page, a script) keeps the stored settings
@@ -31,7 +24,7 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
       const hours = read(f, `energy.step.${i}.hours`, errors, "Hours");
       if (pct == null && hours == null) continue;
       if (pct == null || hours == null) {
-        errors[`energy.step.${i}.${pct == null ? "pct" : "hours"}`] = "Give both the flow (%) and the hours of this step, or neither.";
+        errors[`energy.step.${i}.${pct == null ? "pct" : "hours"}`] ??= "Give both the flow (%) and the hours of this step, or neither.";
         continue;
       }
       profile.push({ flowFraction: pct / 100, hours });

@@ -22,6 +22,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
+import { decimalMessage, readDecimal } from "../shared/decimal";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
@@ -172,11 +173,16 @@ export function candidateEnergy(
   return out;
 }
 
-/** A typed purchase price → integer cents; null for blank (clears); undefined when not a number ≥ 0 (or absurd). */
-export function readPriceCents(raw: FormDataEntryValue | null): number | null | undefined {
-  const t = (raw ?? "").toString().trim().replace(/[\s\u00a0]/g, "").replace(",", ".");
-  if (t === "") return null;
-  const n = Number(t);
-  if (!Number.isFinite(n) || n < 0 || n > 1e12) return undefined;
-  return Math.round(n * 100);
+/**
+ * A typed purchase price → integer cents (null: blank, which clears it), through the forms' strict reader
+ * (shared/decimal.ts: 1,500 is refused as ambiguous; thousands may be grouped only by spaces, 2 450,50).
+ * Not a number, negative or absurd (over 10¹² in the user's currency): the message for the field.
+ */
+export function readPriceCents(raw: FormDataEntryValue | null): { cents: number | null; error?: undefined } | { cents?: undefined; error: string } {
+  const r = readDecimal(raw, { spaceGroups: true });
+  if (r.kind === "blank") return { cents: null };
+  if (r.kind === "bad" && r.grouped) return { error: "The purchase price must be a number with one decimal point or comma; group thousands with spaces only (2 450,50)." };
+  if (r.kind !== "number") return { error: decimalMessage(r, "the purchase price") };
+  if (r.value < 0 || r.value > 1e12) return { error: "The purchase price is a number ≥ 0 (blank clears it)." };
+  return { cents: Math.round(r.value * 100) };
 }

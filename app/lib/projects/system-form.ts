@@ -2,6 +2,7 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
+import { decimalField } from "../shared/decimal";
 import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
 import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
@@ -34,17 +35,7 @@ export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): stri
 export type FormErrors = Record<string, string>;
 
 function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { optional?: boolean; label: string }): number | null {
-  const raw = (f.get(key) ?? "").toString().trim().replace(",", ".");
-  if (raw === "") {
-    if (!opts.optional) errors[key] = `Enter ${opts.label}.`;
-    return null;
-  }
-  const n = Number(raw);
-  if (!Number.isFinite(n)) {
-    errors[key] = `${opts.label[0].toUpperCase()}${opts.label.slice(1)} must be a number.`;
-    return null;
-  }
-  return n;
+  return decimalField(f.get(key), key, opts.label, errors, !opts.optional); // the forms' strict reader (shared/decimal.ts)
 }
 
 export type FormLike = { get(name: string): FormDataEntryValue | null };
@@ -117,7 +108,8 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   if (add === "suction" || add === "discharge") runs.push(newRun(add, add === "suction" ? "Suction run" : "Discharge run"));
   const dutyFlow = si("flow", "dutyFlow", "the duty flow", true);
   const dutyHead = si("head", "dutyHead", "the duty head", true);
-  if ((dutyFlow == null) !== (dutyHead == null)) errors[dutyFlow == null ? "dutyFlow" : "dutyHead"] = "Give both duty flow and head, or neither.";
+  // A field that already has its own message (text that is not a number) keeps it.
+  if ((dutyFlow == null) !== (dutyHead == null)) errors[dutyFlow == null ? "dutyFlow" : "dutyHead"] ??= "Give both duty flow and head, or neither.";
   const raw = {
     fluid,
     temperatureC,

@@ -1,0 +1,25 @@
+// The candidate's purchase price as typed (readPriceCents, energy.ts): the forms' strict reader with
+// space-grouped thousands allowed. Expected values are the product's rules, not measurements.
+import { describe, expect, it } from "vitest";
+import { readPriceCents } from "./energy";
+
+describe("readPriceCents", () => {
+  it("refuses 12,500 as ambiguous (thousands or decimal comma), says how to write it; 12500 and 12,50 are read", () => {
+    expect(readPriceCents("12,500")).toEqual({ error: "The purchase price “12,500” is ambiguous (a thousands comma or a decimal comma?): write 12500, or 12.5." });
+    expect(readPriceCents("12500")).toEqual({ cents: 1_250_000 });
+    expect(readPriceCents("12,50")).toEqual({ cents: 1250 });
+  });
+  it("space-grouped thousands are unambiguous; a comma with a point is not", () => {
+    expect(readPriceCents("2 450,50")).toEqual({ cents: 245_050 });
+    expect(readPriceCents("12\u00a0500")).toEqual({ cents: 1_250_000 });
+    expect(readPriceCents("1,234.56").error).toMatch(/group thousands with spaces only/);
+    expect(readPriceCents("1 23").error).toMatch(/must be a number/);
+  });
+  it("refuses hex, negative and absurd prices; blank clears", () => {
+    expect(readPriceCents("0x10").error).toBe("The purchase price must be a number.");
+    expect(readPriceCents("-1").error).toMatch(/≥ 0/);
+    expect(readPriceCents("1e13").error).toMatch(/≥ 0/);
+    expect(readPriceCents("  ")).toEqual({ cents: null });
+    expect(readPriceCents(null)).toEqual({ cents: null });
+  });
+});

@@ -1,0 +1,53 @@
+// The system editor's numbers through the forms' strict reader (shared/decimal.ts): product rules, US units
+// where the edge hunt found 1,500 gpm read as 1.5 gpm. Conversions: 1 gpm = 6.30901964e-5 m³/s (NIST SP 811).
+import { describe, expect, it } from "vitest";
+import { readSystemForm } from "./system-form";
+import { US_UNITS, SI_UNITS } from "~/lib/shared/units";
+
+const GPM = 6.30901964e-5; // m³/s per US gallon per minute (NIST SP 811)
+const base: Record<string, string> = {
+  name: "Loop", temperature: "68", staticLow: "30", staticHigh: "30", suctionSurfacePressure: "14.696", runCount: "1",
+  "run.0.side": "discharge", "run.0.diameter": "4", "run.0.length": "200", dutyFlow: "150", dutyHead: "60", hoursPerYear: "4000", tariffPerKWh: "0.2",
+};
+const read = (o: Record<string, string>, sys = US_UNITS) => {
+  const m = new Map(Object.entries({ ...base, ...o }));
+  return readSystemForm({ get: (k: string) => m.get(k) ?? null }, sys);
+};
+
+describe("readSystemForm: numbers as typed (product rules)", () => {
+  it("refuses 1,500 gpm as ambiguous, with how to write it; takes 1500 and 1,5", () => {
+    const bad = read({ dutyFlow: "1,500" });
+    expect(bad.input).toBeNull();
+    expect(bad.errors.dutyFlow).toBe("The duty flow “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
+    expect(read({ dutyFlow: "1500" }).input!.duty!.flow).toBeCloseTo(1500 * GPM, 9);
+    expect(read({ dutyFlow: "1,5" }).input!.duty!.flow).toBeCloseTo(1.5 * GPM, 12);
+  });
+  it("refuses the other ambiguous fields the same way: hours per year, a run's length", () => {
+    expect(read({ hoursPerYear: "8,760" }).errors.hoursPerYear).toMatch(/ambiguous.*write 8760, or 8\.76\./);
+    expect(read({ "run.0.length": "1,200" }).errors["run.0.length"]).toMatch(/ambiguous.*write 1200, or 1\.2\./);
+    expect(read({ hoursPerYear: "8760" }).input!.hoursPerYear).toBe(8760);
+  });
+  it("refuses hex and binary (Number() would read 0x10 as 16)", () => {
+    expect(read({ dutyFlow: "0x10" }).errors.dutyFlow).toBe("The duty flow must be a number.");
+    expect(read({ dutyFlow: "0b11" }).errors.dutyFlow).toBe("The duty flow must be a number.");
+  });
+  it("keeps the field's own message for 1e309: the cross-field check never overwrites it", () => {
+    const r = read({ dutyFlow: "1e309" });
+    expect(r.errors.dutyFlow).toBe("The duty flow must be a number: “1e309” is out of range.");
+    expect(read({ dutyFlow: "1.5e3" }).errors).toEqual({});
+    // A blank flow with a head still gets the cross-field message.
+    expect(read({ dutyFlow: "" }).errors.dutyFlow).toBe("Give both duty flow and head, or neither.");
+  });
+  it("a bad optional field is an error, not its default", () => {
+    expect(read({ npshMargin: "abc" }).errors.npshMargin).toBe("The NPSH margin ratio must be a number.");
+    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra K must be a number.");
+    expect(read({ npshMargin: "" }).input!.npshMargin).toBe(1.1);
+  });
+  it("load profile and life-cycle fields: an ambiguous number is refused on its field, its pair message does not replace it", () => {
+    const energy = { "energy.control": "fixed-speed", "energy.profileKind": "user", "energy.step.0.pct": "100", "energy.step.0.hours": "1,000" };
+    const r = read(energy, SI_UNITS);
+    expect(r.errors["energy.step.0.hours"]).toMatch(/ambiguous.*write 1000, or 1\./);
+    expect(read({ ...energy, "energy.step.0.hours": "1000", "energy.years": "abc" }, SI_UNITS).errors["energy.years"]).toBe("Years must be a number.");
+    expect(read({ ...energy, "energy.step.0.hours": "1000" }, SI_UNITS).input!.energy!.profile).toEqual([{ flowFraction: 1, hours: 1000 }]);
+  });
+});

@@ -1,0 +1,97 @@
+// Numbers typed into a form field: the one strict reader every form uses (system editor, load profile,
+// candidate adjustment, purchase price, field check, mapping defaults, the list filters). Pure: server
+// and browser. The grammar of one decimal number is shared with the CSV importer (`import/numbers.ts`,
+// which adds thousands groups and a per-file decimal-comma flag on top of it).
+//
+// Product rules (what the forms accept):
+//  - an optional sign (+, - or the minus sign U+2212), digits with at most one decimal separator — a
+//    point, or a comma as written in much of Europe — and an optional exponent (1.5e3), the whole
+//    within the finite range of a double; whitespace around it is trimmed;
+//  - refused: hex/binary/octal prefixes (0x10, 0b11, 0o7: Number() would take them), Infinity, NaN,
+//    digit separators (1_000, 1 500), more than one separator (1,500.5, 1.2.3), an exponent past the
+//    range (1e309 overflows; 1e-400 would silently be 0);
+//  - a comma followed by exactly three digits and nothing else (1,500, -12,000) is ambiguous — a
+//    thousands comma or a decimal comma — so it is refused with a message saying how to write either;
+//    1,5 and 12,50 are decimals, and so is 0,500 (no one groups thousands after a lone 0, the CSV
+//    importer's rule too). A point with three digits (1.500, 2.125) stays a decimal point: that is how
+//    fractional inches and feet are typed, and the importer reads dot-thousands only in comma files;
+//  - blank is its own answer: each form decides whether the field is required or what blank means.
+//  - one exception, asked for by a field (`spaceGroups`, the purchase price only, as it was before this
+//    reader): thousands grouped by spaces in threes (2 450,50 and 12 500, the ISO 80000-1 way: a space
+//    is never a decimal separator, so it is not ambiguous); the comma or point after them is the decimal.
+
+/** One number with a decimal point (12, 12.5, .5, 12., -3, 1e-3). Also the CSV importer's dot-decimal cell. */
+export const DOT_DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+/** One number with a decimal comma (12, 12,5, ,5, -3). Also the CSV importer's comma-decimal cell. */
+export const COMMA_DECIMAL = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
+/** Digits, a comma and exactly three digits: 1,500 could be fifteen hundred or one and a half. */
+const AMBIGUOUS_COMMA = /^([+-]?)(\d*[1-9]\d*),(\d{3})$/;
+/** Digits grouped by spaces (space, no-break, narrow no-break, thin) in threes, then an optional decimal part. */
+const SPACE_GROUPS = /^([+-]?\d{1,3}(?:[ \u00a0\u202f\u2009]\d{3})+)([.,]\d*)?$/;
+/** Digits in groups with separators (1,500.5, 1 500, 1.500,25): someone wrote thousands separators. */
+const GROUPED = /^[+-]?\d+(?:[\s,.'\u00a0\u202f]\d+){2,}$|^[+-]?\d{1,3}(?:[\s'\u00a0\u202f]\d{3})+$/;
+
+export type DecimalText =
+  | { kind: "number"; value: number }
+  | { kind: "blank" }
+  /** 1,500: `thousands` and `decimal` are the two ways to write what might have been meant. */
+  | { kind: "ambiguous"; text: string; thousands: string; decimal: string }
+  | { kind: "range"; text: string }
+  | { kind: "bad"; text: string; grouped: boolean };
+
+/** Reads a form value (anything that is not a string, such as a File, is bad text). */
+export function readDecimal(raw: unknown, opts: { spaceGroups?: boolean } = {}): DecimalText {
+  if (raw == null) return { kind: "blank" };
+  if (typeof raw !== "string") return { kind: "bad", text: "", grouped: false };
+  let s = raw.trim().replace(/^\u2212/, "-");
+  if (s === "") return { kind: "blank" };
+  const groups = opts.spaceGroups ? SPACE_GROUPS.exec(s) : null;
+  if (groups) s = groups[1].replace(/[ \u00a0\u202f\u2009]/g, "") + (groups[2] ?? "");
+  const amb = AMBIGUOUS_COMMA.exec(s);
+  if (amb) return { kind: "ambiguous", text: s, thousands: `${amb[1]}${amb[2]}${amb[3]}`, decimal: `${amb[1]}${amb[2]}${`.${amb[3]}`.replace(/\.?0+$/, "")}` };
+  if (!DOT_DECIMAL.test(s) && !COMMA_DECIMAL.test(s)) return { kind: "bad", text: s, grouped: GROUPED.test(s) };
+  const value = Number(s.replace(",", "."));
+  const mantissa = s.split(/[eE]/)[0];
+  if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) return { kind: "range", text: s };
+  return { kind: "number", value: value === 0 ? 0 : value }; // -0 reads as 0
+}
+
+/** The number, or NaN for anything else (blank included): for filters where junk means "no filter". */
+export function decimalOrNaN(raw: unknown): number {
+  const r = readDecimal(raw);
+  return r.kind === "number" ? r.value : Number.NaN;
+}
+
+const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+const quoted = (s: string) => `“${s.length > 40 ? `${s.slice(0, 39)}…` : s}”`;
+
+/**
+ * The message for text that is not a number, for a field called `label` ("the duty flow", "Hours").
+ * A blank field gets "Enter …" (for a required field). A number gets "".
+ */
+export function decimalMessage(r: DecimalText, label: string): string {
+  const L = capital(label);
+  switch (r.kind) {
+    case "number":
+      return "";
+    case "blank":
+      return `Enter ${label}.`;
+    case "ambiguous":
+      return `${L} ${quoted(r.text)} is ambiguous (a thousands comma or a decimal comma?): write ${r.thousands}, or ${r.decimal}.`;
+    case "range":
+      return `${L} must be a number: ${quoted(r.text)} is out of range.`;
+    case "bad":
+      return r.grouped ? `${L} must be a number with one decimal point or comma and no thousands separators (like 1500.5).` : `${L} must be a number.`;
+  }
+}
+
+/**
+ * One form field read into `errors`: the number; null when blank (with "Enter …" when `required`) or
+ * when the text is not a number (its message set under `key`, unless the field already has one).
+ */
+export function decimalField(raw: unknown, key: string, label: string, errors: Record<string, string>, required = false): number | null {
+  const r = readDecimal(raw);
+  if (r.kind === "number") return r.value;
+  if (r.kind !== "blank" || required) errors[key] ??= decimalMessage(r, label);
+  return null;
+}
