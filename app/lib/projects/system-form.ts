@@ -4,7 +4,7 @@ import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
 import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_MAGNITUDE, newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -42,6 +42,11 @@ function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { option
   const n = Number(raw);
   if (!Number.isFinite(n)) {
     errors[key] = `${opts.label[0].toUpperCase()}${opts.label.slice(1)} must be a number.`;
+    return null;
+  }
+  // Typed values past the schema's bound would overflow on the way to SI (1e308 kPa): refused here, by field.
+  if (Math.abs(n) > MAX_MAGNITUDE) {
+    errors[key] = `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: check the unit.`;
     return null;
   }
   return n;

@@ -1,0 +1,63 @@
+// Inputs far outside any pump system, found by sending them to the running app (helper "attack",
+// 2026-12-02): each answered 500. A value the app cannot work with is the user's to fix (a 400 with
+// the field's message), and a system the engine can evaluate but no pump can serve is a page that says so.
+// Real route modules, real guards, real MariaDB (app/test/harness.ts).
+import { afterAll, beforeAll, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { systems, users } from "@db/schema";
+import { createProject, createSystem } from "~/lib/projects";
+import { defaultSystemInput } from "~/lib/projects/hydraulics";
+import * as systemPage from "~/routes/systems.$id";
+import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
+import { call, makeMember, type TestMember } from "./harness";
+
+let m: TestMember;
+let project: number;
+const viewerOfM = () => ({ userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const });
+beforeAll(async () => {
+  m = await makeMember("admin");
+  project = await createProject(viewerOfM(), { name: "Out of range", site: "", description: "" });
+});
+afterAll(() => closeDb());
+
+/** The system editor's fields for an open tank, no pipe runs, in the SI preset's display units (head m, pressure kPa, flow m³/h). */
+const editorForm = (over: Record<string, string> = {}) => ({
+  intent: "save", name: "Edited", temperature: "20", mode: "open", staticLow: "10", staticHigh: "10", pressureDifference: "0", controlHead: "0",
+  suctionSurfacePressure: "101.325", suctionStaticHead: "2", dutyFlow: "20", dutyHead: "25", runCount: "0", ...over,
+});
+
+test("POST /systems/:id with a value whose SI form or display overflows a double (1e308 kPa, 1e308 m): the editor's message beside the field, nothing saved (was 500, or saved and a 500 for every US-unit reader)", async () => {
+  const system = await createSystem(viewerOfM(), project, "Overflow", { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
+  const post = (form: Record<string, string>) => call(systemPage.action as never, { path: `/systems/${system}`, params: { id: String(system) }, cookie: m.cookie, form });
+  const ok = await post(editorForm()); // control: the same form with ordinary values saves
+  expect(ok.status).toBe(200);
+  expect((ok.body as { saved?: boolean }).saved).toBe(true);
+  const saved = (await db().select().from(systems).where(eq(systems.id, system)))[0].inputJson;
+  for (const [field, value] of [["pressureDifference", "1e308"], ["suctionSurfacePressure", "1e308"], ["dutyHead", "1e308"], ["staticHigh", "-1e308"], ["dutyFlow", "1e308"], ["flowMax", "1e308"]]) {
+    const r = await post(editorForm({ [field]: value }));
+    expect(r.status, `${field}=${value}`).toBe(200); // the page's own answer to any refused field (errors shown in the form)
+    const errors = (r.body as { errors: Record<string, string>; saved?: boolean }).errors;
+    expect(errors[field], `${field}=${value}`).toBeTruthy();
+    expect((r.body as { saved?: boolean }).saved).toBeUndefined();
+  }
+  expect((await db().select().from(systems).where(eq(systems.id, system)))[0].inputJson).toBe(saved);
+});
+
+test("POST /api/v1/systems/:id/preview with duty.head 1e308 m, by a member reading US units → 400 problem+json naming duty.head (was 500: the head in ft overflows)", async () => {
+  const us = await makeMember("engineer", m.workspaceId);
+  await db().update(users).set({ unitSystem: "US" }).where(eq(users.id, us.userId));
+  const system = await createSystem(viewerOfM(), project, "Preview overflow", { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
+  const input = { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 1e308 } };
+  const r = await call(apiPreview.action as never, {
+    path: `/api/v1/systems/${system}/preview`,
+    params: { id: String(system) },
+    method: "POST",
+    cookie: us.cookie,
+    headers: { "content-type": "application/json", origin: "http://127.0.0.1:3999" },
+    body: JSON.stringify({ input }),
+  });
+  expect(r.status).toBe(400);
+  expect(r.headers.get("content-type")).toBe("application/problem+json");
+  expect(JSON.stringify(r.body)).toContain("duty.head");
+});
