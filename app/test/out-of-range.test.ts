@@ -10,6 +10,8 @@ import { createProject, createSystem } from "~/lib/projects";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import * as systemPage from "~/routes/systems.$id";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
+import * as searchPage from "~/routes/systems.$id.search";
+import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import { call, makeMember, type TestMember } from "./harness";
 
 let m: TestMember;
@@ -60,4 +62,15 @@ test("POST /api/v1/systems/:id/preview with duty.head 1e308 m, by a member readi
   expect(r.status).toBe(400);
   expect(r.headers.get("content-type")).toBe("application/problem+json");
   expect(JSON.stringify(r.body)).toContain("duty.head");
+});
+
+test("a system whose suction cannot feed any pump (20 m suction lift from an open tank: NPSHa below zero): GET /systems/:id/search and GET /api/v1/systems/:id/search answer 200 (were 500: npshAvailable must not be negative)", async () => {
+  // 20 m of lift from a tank at 101.325 kPa: NPSHa ≈ 10.3 − 20 − losses < 0 m at every flow (common practice: the barometric head of water is about 10.3 m)
+  const input = { ...defaultSystemInput(), mode: "open" as const, suctionStaticHead: -20, duty: { flow: 20 / 3600, head: 25 } };
+  const system = await createSystem(viewerOfM(), project, "Suction lift", input);
+  const page = await call(searchPage.loader as never, { path: `/systems/${system}/search`, params: { id: String(system) }, cookie: m.cookie });
+  expect(page.status).toBe(200);
+  const api = await call(apiSearch.loader as never, { path: `/api/v1/systems/${system}/search`, params: { id: String(system) }, cookie: m.cookie });
+  expect(api.status).toBe(200);
+  expect(Array.isArray((api.body as { results: unknown[] }).results)).toBe(true);
 });
