@@ -5,9 +5,12 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { systems, users } from "@db/schema";
-import { createProject, createSystem } from "~/lib/projects";
-import { defaultSystemInput } from "~/lib/projects/hydraulics";
+import { candidates, libraries, systems, users } from "@db/schema";
+import { readFileSync } from "node:fs";
+import { addCandidate, createProject, createSystem } from "~/lib/projects";
+import { createLibrary, curvesOfRevisions } from "~/lib/libraries";
+import { importCsvText } from "~/lib/projects/test-kit";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/projects/hydraulics";
 import * as systemPage from "~/routes/systems.$id";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import * as searchPage from "~/routes/systems.$id.search";
@@ -73,4 +76,25 @@ test("a system whose suction cannot feed any pump (20 m suction lift from an ope
   const api = await call(apiSearch.loader as never, { path: `/api/v1/systems/${system}/search`, params: { id: String(system) }, cookie: m.cookie });
   expect(api.status).toBe(200);
   expect(Array.isArray((api.body as { results: unknown[] }).results)).toBe(true);
+});
+
+/** A system with one candidate (a curve of fixtures/csv/long-si.csv) in m's workspace. */
+async function systemWithCandidate(name: string) {
+  const lib = await createLibrary(viewerOfM(), { name: `${name} ${Date.now()}`, description: "" });
+  await importCsvText(viewerOfM(), lib, readFileSync("fixtures/csv/long-si.csv", "utf8"), "o.csv");
+  const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
+  const system = await createSystem(viewerOfM(), project, name, { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
+  const added = await addCandidate(viewerOfM(), system, (await curvesOfRevisions([rev.id!]))[0].id, DEFAULT_ADJUSTMENT);
+  if (!added.ok) throw new Error(added.reason);
+  return { system, candidate: added.id };
+}
+
+test("POST /systems/:id intent=adjust with motorRating=1e308 (kW): the candidate's message, adjustment unchanged (was 500: the rating in W overflowed)", async () => {
+  const { system, candidate } = await systemWithCandidate("Motor overflow");
+  const before = (await db().select().from(candidates).where(eq(candidates.id, candidate)))[0].adjustmentJson;
+  const form = { intent: "adjust", candidateId: String(candidate), method: "none", ratio: "", arrangement: "single", dutyPumps: "1", standbyPumps: "0", motorRating: "1e308", serviceFactor: "1", ieClass: "IE3" };
+  const r = await call(systemPage.action as never, { path: `/systems/${system}`, params: { id: String(system) }, cookie: m.cookie, form });
+  expect(r.status).toBe(200);
+  expect((r.body as { errors: Record<string, string> }).errors[`adj.${candidate}`]).toMatch(/motor/i);
+  expect((await db().select().from(candidates).where(eq(candidates.id, candidate)))[0].adjustmentJson).toBe(before);
 });
