@@ -7,7 +7,7 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, libraries, systems, users } from "@db/schema";
 import { readFileSync } from "node:fs";
-import { addCandidate, createProject, createSystem } from "~/lib/projects";
+import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects";
 import { createLibrary, curvesOfRevisions } from "~/lib/libraries";
 import { importCsvText } from "~/lib/projects/test-kit";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/projects/hydraulics";
@@ -15,6 +15,9 @@ import * as systemPage from "~/routes/systems.$id";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import * as searchPage from "~/routes/systems.$id.search";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
+import * as selectionPage from "~/routes/selections.$id";
+import * as selectionCsv from "~/routes/selections.$id.export-csv";
+import * as selectionJson from "~/routes/selections.$id.export-json";
 import { call, makeMember, type TestMember } from "./harness";
 
 let m: TestMember;
@@ -97,4 +100,15 @@ test("POST /systems/:id intent=adjust with motorRating=1e308 (kW): the candidate
   expect(r.status).toBe(200);
   expect((r.body as { errors: Record<string, string> }).errors[`adj.${candidate}`]).toMatch(/motor/i);
   expect((await db().select().from(candidates).where(eq(candidates.id, candidate)))[0].adjustmentJson).toBe(before);
+});
+
+test("a selection titled with a quantity token past a double in display units (⟦flow|1e308⟧): its page and both exports answer 200 with the text as typed (were 500 for every reader)", async () => {
+  const { candidate } = await systemWithCandidate("Token title");
+  const title = "Pump for ⟦flow|1e308⟧";
+  const selection = await selectCandidate(viewerOfM(), candidate, title, "note ⟦head|1e308⟧");
+  for (const route of [selectionPage, selectionCsv, selectionJson]) {
+    const r = await call(route.loader as never, { path: `/selections/${selection}`, params: { id: String(selection) }, cookie: m.cookie });
+    expect(r.status).toBe(200);
+    expect(JSON.stringify(r.body)).toContain("⟦flow|1e308⟧");
+  }
 });
