@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { candidates, libraries, systems, users } from "@db/schema";
+import { candidates, fieldChecks, libraries, systems, users } from "@db/schema";
 import { readFileSync } from "node:fs";
 import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects";
 import { createLibrary, curvesOfRevisions } from "~/lib/libraries";
@@ -18,6 +18,9 @@ import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as selectionPage from "~/routes/selections.$id";
 import * as selectionCsv from "~/routes/selections.$id.export-csv";
 import * as selectionJson from "~/routes/selections.$id.export-json";
+import * as fieldForm from "~/routes/field.selections.$id";
+import * as fieldSync from "~/routes/field.selections.$id.checks";
+import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 import { call, makeMember, type TestMember } from "./harness";
 
 let m: TestMember;
@@ -111,4 +114,20 @@ test("a selection titled with a quantity token past a double in display units (�
     expect(r.status).toBe(200);
     expect(JSON.stringify(r.body)).toContain("⟦flow|1e308⟧");
   }
+});
+
+test("a field check with a reading past a double in SI (sPressure 1e308 kPa, flow 1e400): 400 with the field's message from the page's form and the phone's queue, nothing recorded (were 500)", async () => {
+  const { selectionId } = await storeSelection(m.workspaceId, m.userId, undefined, "Overflow field");
+  const post = (route: typeof fieldForm | typeof fieldSync, suffix: string, form: Record<string, string>) =>
+    call(route.action as never, { path: `/field/selections/${selectionId}/${suffix}`, params: { id: String(selectionId) }, cookie: m.cookie, form });
+  for (const [field, value] of [["sPressure", "1e308"], ["flow", "1e400"], ["dDiameter", "-1e308"]]) {
+    const form = fieldsForHead(25, 998.2, { flow: "0.005", [field]: value });
+    const page = await post(fieldForm, "photos", form);
+    expect(page.status, `${field}=${value}`).toBe(400);
+    expect((page.body as { errors: Record<string, string> }).errors[field], `${field}=${value}`).toMatch(/too (high|low)/);
+    const sync = await post(fieldSync, "checks", { ...form, clientId: `overflow-${field}-${Date.now().toString(36)}` });
+    expect(sync.status, `${field}=${value}`).toBe(400);
+    expect((sync.body as { errors: Record<string, string> }).errors[field]).toMatch(/too (high|low)/);
+  }
+  expect(await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId))).toEqual([]);
 });

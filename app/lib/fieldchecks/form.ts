@@ -154,6 +154,11 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
       return null;
     }
     const x = Number(s);
+    // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
+    if (!(Math.abs(x) <= 1e12)) {
+      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}: check the value and its unit.`;
+      return null;
+    }
     const si = q ? toSI(q, unit, x) : x;
     if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
       errors[key] = `${capital(label)} is too low: check the value and its unit.`;
