@@ -20,6 +20,8 @@ import * as selectionCsv from "~/routes/selections.$id.export-csv";
 import * as selectionJson from "~/routes/selections.$id.export-json";
 import * as fieldForm from "~/routes/field.selections.$id";
 import * as fieldSync from "~/routes/field.selections.$id.checks";
+import { parseCheckFields, PRESSURE_UNITS } from "~/lib/fieldchecks";
+import { unitLabel } from "~/engine";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 import { call, makeMember, type TestMember } from "./harness";
 
@@ -130,4 +132,12 @@ test("a field check with a reading past a double in SI (sPressure 1e308 kPa, flo
     expect((sync.body as { errors: Record<string, string> }).errors[field]).toMatch(/too (high|low)/);
   }
   expect(await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId))).toEqual([]);
+});
+
+test("a field check posted with a unit the form does not offer (pressureUnit=x): the fields given back to redraw the form carry a unit it can label (the page threw drawing 'x': 500)", () => {
+  const r = parseCheckFields(fieldsForHead(25, 998.2, { pressureUnit: "x", flowUnit: "gpm-ish", temperatureUnit: "K" }));
+  expect(r.ok).toBe(false);
+  expect(Object.keys(r.errors)).toEqual(expect.arrayContaining(["pressureUnit", "flowUnit", "temperatureUnit"]));
+  expect(PRESSURE_UNITS).toContain(r.fields.pressureUnit);
+  for (const [q, key] of [["pressure", "pressureUnit"], ["flow", "flowUnit"], ["temperature", "temperatureUnit"]] as const) expect(() => unitLabel(q, r.fields[key])).not.toThrow();
 });

@@ -140,6 +140,7 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
     if (v === undefined || v === "") return fallback;
     if ((allowed as readonly string[]).includes(v)) return v as T;
     errors[key] = "Choose one of the listed options.";
+    f[key] = fallback; // the form is drawn again from these fields: only a unit it offers
     return fallback;
   };
   /** A number in `unit` → SI; required unless `optional`; bounds in SI. */
