@@ -141,3 +141,11 @@ test("a field check posted with a unit the form does not offer (pressureUnit=x):
   expect(PRESSURE_UNITS).toContain(r.fields.pressureUnit);
   for (const [q, key] of [["pressure", "pressureUnit"], ["flow", "flowUnit"], ["temperature", "temperatureUnit"]] as const) expect(() => unitLabel(q, r.fields[key])).not.toThrow();
 });
+
+test("GET /systems/:id/search?maxPower=1e308 (kW): 200, the filter set aside as for any other odd value (was 500: the power in W overflowed)", async () => {
+  const system = await createSystem(viewerOfM(), project, "Power filter", { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
+  for (const maxPower of ["1e308", "-1e308", "1e400"]) {
+    const r = await call(searchPage.loader as never, { path: `/systems/${system}/search?maxPower=${maxPower}`, params: { id: String(system) }, cookie: m.cookie });
+    expect(r.status, maxPower).toBe(200);
+  }
+});
