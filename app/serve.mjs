@@ -157,7 +157,9 @@ const publicNames = new Set(fs.readdirSync(assetsDir).filter((name) => name !== 
 const publicFiles = express.static(assetsDir, { maxAge: "1h" });
 app.use((req, res, next) => (publicNames.has(req.path.split("/")[1]) ? publicFiles(req, res, next) : next()));
 app.use(bodyLimit);
-app.all("*", createRequestHandler({ build, mode: process.env.NODE_ENV }));
+// Mounted with use(), not all("*"): a route pattern makes Express decode the path first, and a bad escape
+// (/projects/%FF) became its own HTML 400 with a URIError logged; the router answers such paths (404).
+app.use(createRequestHandler({ build, mode: process.env.NODE_ENV }));
 // After a 413 the app's own answer (its body read failed) has nowhere to go: drop it quietly.
 app.use((err, req, res, next) => {
   if (res.locals.tooLarge) return; // answered already; the connection closes after the linger

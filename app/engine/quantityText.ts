@@ -7,6 +7,7 @@
  * Display helpers, not part of the engine's public face (index.ts): import this file by path.
  */
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
+import { EngineInputError } from "./errors.ts";
 
 /** Matches one token: quantity name (letters) and a number as written by {@link qt} (or NaN). */
 export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)⟧/g;
@@ -94,7 +95,12 @@ export function renderQuantities(text: string, units: UnitPreset): string {
     if (raw === "NaN") return "—";
     const x = raw.trim() === "" ? NaN : Number(raw);
     if (!Number.isFinite(x)) return whole;
-    return fmtQuantity(units, q, x);
+    try {
+      return fmtQuantity(units, q, x);
+    } catch (e) {
+      if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written
+      throw e;
+    }
   });
 }
 

@@ -3,7 +3,7 @@ import type { Route } from "./+types/api.v1.libraries.$id.curves";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { libraryCurves } from "~/lib/libraries";
-import { forbidden, notFound, badRequest } from "~/lib/shared/problem.server";
+import { forbidden, notFound, badRequest, methodNotAllowed } from "~/lib/shared/problem.server";
 import { IdField, readQuery } from "~/lib/shared/forms.server";
 
 // GET /api/v1/libraries/:id/curves[?revision=N] — curve sets with points, SI units
@@ -25,3 +25,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     throw e;
   }
 }
+
+export const action = () => methodNotAllowed("GET");

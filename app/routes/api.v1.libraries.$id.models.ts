@@ -3,6 +3,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listModels } from "~/lib/libraries";
 import { answerById } from "~/lib/shared/api-errors.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /api/v1/libraries/:id/models — models of the current revision with their curve sets (no points). SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -12,3 +13,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     models: await listModels(viewerOfApi(c), id),
   }));
 }
+
+export const action = () => methodNotAllowed("GET");

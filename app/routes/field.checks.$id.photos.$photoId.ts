@@ -3,6 +3,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { getPhoto } from "~/lib/fieldchecks/photos.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /field/checks/:id/photos/:photoId — one photo, with the content type found from its bytes at upload.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -20,3 +21,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

@@ -3,6 +3,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readFormSafe, readId } from "~/lib/shared/forms.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 import { submitCheckForm } from "~/lib/fieldchecks/submit.server";
 
 // POST /field/selections/:id/checks — a check sent from the phone's queue (multipart: the form's
@@ -22,3 +23,5 @@ export async function action({ request, params }: Route.ActionArgs) {
     return asProblem(e);
   }
 }
+
+export const loader = () => methodNotAllowed("POST", "The phone's queue posts checks here; the form is at /field/selections/:id.");

@@ -5,6 +5,7 @@ import { readId } from "~/lib/shared/forms.server";
 import { checkHistory } from "~/lib/fieldchecks/records.server";
 import { historyCsv } from "~/lib/fieldchecks";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /field/selections/:id/export.csv — every check of the selection (all versions), SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -14,3 +15,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-field-checks-${h.selection.id}.csv"` },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

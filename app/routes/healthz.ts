@@ -1,5 +1,6 @@
 import type { Route } from "./+types/healthz";
 import { health } from "~/lib/shared/health.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /healthz → { status, db: "ok" | "down", version }; 503 when the database does not answer.
 export async function loader(_: Route.LoaderArgs) {
@@ -9,3 +10,5 @@ export async function loader(_: Route.LoaderArgs) {
     headers: { "Cache-Control": "no-store" },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

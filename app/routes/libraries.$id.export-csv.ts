@@ -3,6 +3,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { curvesToCsv, libraryCurves } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /libraries/:id/export.csv — the current revision in our own CSV format (fixtures/demo/FORMAT.md).
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -13,3 +14,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-library-${id}.csv"` },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

@@ -3,6 +3,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { getLibrary, libraryCurves } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /libraries/:id/export.json — the current revision, SI units (flow m³/s, head m, efficiency 0..1, power W, NPSHr m).
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -16,3 +17,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-library-${id}.json"` },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

@@ -3,6 +3,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { pictureBytes } from "~/lib/tracer/pictures.server";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 // GET /libraries/:id/trace/:pictureId/file — the stored picture, with the type found from its bytes.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -20,3 +21,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

@@ -4,6 +4,7 @@ import { getSelection, selectionCsv } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { renderDeep, renderUnits, SI_UNITS } from "~/lib/shared/units";
+import { methodNotAllowed } from "~/lib/shared/problem.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
@@ -12,3 +13,5 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.csv"` },
   });
 }
+
+export const action = () => methodNotAllowed("GET");

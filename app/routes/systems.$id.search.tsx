@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { addCandidate, addCandidates, candidateSetIds, MAX_CANDIDATES, MAX_PICKS, PicksSchema, SEARCH_PAGE_ROWS, searchForSystem } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryId, QueryText } from "~/lib/shared/forms.server";
-import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
+import { DEFAULT_ADJUSTMENT, MAX_MAGNITUDE } from "~/lib/projects/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
@@ -43,7 +43,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
     speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    maxPowerW: Number.isFinite(maxPower) && maxPower > 0 ? fromChosen(sys, "power", maxPower) : undefined,
+    maxPowerW: maxPower > 0 && maxPower <= MAX_MAGNITUDE ? fromChosen(sys, "power", maxPower) : undefined, // past it W would overflow (1e308 kW)
     methods: methods.length ? methods : undefined,
     allowBeyondCatalogue: query.beyond,
   };

@@ -207,6 +207,22 @@ describe.skipIf(!built)("body limits on the bytes read", () => {
   });
 });
 
+describe.skipIf(!built)("paths with bad percent-escapes (helper \"attack\", 2026-12-02)", () => {
+  test("an id that is no UTF-8 once decoded (%FF, %C0%AF): the app's own 404 (problem+json under /api), not Express's HTML 400 with a URIError logged", async () => {
+    for (const p of ["/projects/%FF", "/selections/%C0%AF/export.csv", "/libraries/%FF/trace/%C0%AF"]) {
+      const r = await fetch(`${base}${p}`, { headers: { cookie } });
+      expect(r.status, p).toBe(404);
+      expect(await r.text(), p).not.toContain("<pre>Bad Request</pre>");
+    }
+    for (const p of ["/api/v1/systems/%FF", "/api/v1/models/%C0%AF", "/api/v1/libraries/%FF/curves"]) {
+      const r = await fetch(`${base}${p}`, { headers: { authorization: `Bearer ${token}` } });
+      expect(r.status, p).toBeGreaterThanOrEqual(400);
+      expect(r.status, p).toBeLessThan(500);
+      expect(r.headers.get("content-type"), p).toBe("application/problem+json");
+    }
+  });
+});
+
 describe.skipIf(!built)("settings checked at start (app/lib/shared/env.server.ts)", () => {
   test("a bad setting stops the server with one line per problem, before it listens", async () => {
     const p = await freePort();

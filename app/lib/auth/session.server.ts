@@ -158,11 +158,23 @@ const cache = new WeakMap<Request, Promise<Auth | null>>();
 export function getAuth(request: Request): Promise<Auth | null> {
   let p = cache.get(request);
   if (!p) {
-    const sessionId = lucia().readSessionCookie(request.headers.get("cookie") ?? "");
+    const sessionId = sessionIdOf(request.headers.get("cookie") ?? "");
     p = sessionId ? oncePerRequest(`auth:${sessionId}`, () => validate(sessionId)) : Promise.resolve(null);
     cache.set(request, p);
   }
   return p;
+}
+
+/**
+ * The session id in a Cookie header. lucia's reader decodes every cookie and throws on a bad %-escape in
+ * any of them (a forged one, or another app's on this host): then only our cookie is read, as ids are written.
+ */
+function sessionIdOf(header: string): string | null {
+  try {
+    return lucia().readSessionCookie(header);
+  } catch {
+    return new RegExp(`(?:^|;)\\s*${lucia().sessionCookieName}=([A-Za-z0-9]+)\\s*(?:;|$)`).exec(header)?.[1] ?? null;
+  }
 }
 
 async function validate(sessionId: string): Promise<Auth | null> {

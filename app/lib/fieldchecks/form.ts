@@ -141,6 +141,7 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
     if (v === undefined || v === "") return fallback;
     if ((allowed as readonly string[]).includes(v)) return v as T;
     errors[key] = "Choose one of the listed options.";
+    f[key] = fallback; // the form is drawn again from these fields: only a unit it offers
     return fallback;
   };
   /** A number in `unit` → SI; required unless `optional`; bounds in SI. */
@@ -148,6 +149,11 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
     // The forms' strict reader (shared/decimal.ts): a decimal point or comma; 1,500 refused as ambiguous.
     const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
     if (x === null) return null;
+    // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
+    if (!(Math.abs(x) <= 1e12)) {
+      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}: check the value and its unit.`;
+      return null;
+    }
     const si = q ? toSI(q, unit, x) : x;
     if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
       errors[key] = `${capital(label)} is too low: check the value and its unit.`;

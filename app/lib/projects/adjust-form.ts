@@ -4,7 +4,7 @@
 // service factor (blank: 1). Text that is not a number is an error naming its field, never a silent
 // default. Pure: the route validates with AdjustmentSchema through this.
 import * as v from "valibot";
-import { AdjustmentSchema, type Adjustment } from "./hydraulics";
+import { AdjustmentSchema, MAX_MAGNITUDE, type Adjustment } from "./hydraulics";
 import { decimalField } from "../shared/decimal";
 import { fromChosen, type UnitChoice } from "../shared/units";
 
@@ -24,7 +24,8 @@ export function readAdjustForm(form: FormData, sys: UnitChoice): { adjustment: A
     arrangement: form.get("arrangement"),
     dutyPumps,
     standbyPumps,
-    motorRating: motor > 0 ? fromChosen(sys, "power", motor) : 0,
+    // A rating past MAX_MAGNITUDE would overflow on the way to W (1e308 kW): handed on as typed, for the schema to refuse.
+    motorRating: motor > 0 ? (motor > MAX_MAGNITUDE ? motor : fromChosen(sys, "power", motor)) : 0,
     serviceFactor,
     ieClass: form.get("ieClass") ?? undefined,
   });

@@ -16,7 +16,7 @@ export const AdjustmentSchema = v.object({
   dutyPumps: v.pipe(v.number(), v.integer(DUTY), v.minValue(1, DUTY), v.maxValue(8, DUTY)),
   standbyPumps: v.pipe(v.number(), v.integer(STANDBY), v.minValue(0, STANDBY), v.maxValue(8, STANDBY)),
   /** Motor rating W (0: not set) and service factor. */
-  motorRating: v.pipe(v.number(), v.finite(), v.minValue(0)),
+  motorRating: v.pipe(v.number(), v.finite(), v.minValue(0), v.maxValue(1e9, "A motor rating above 1 GW? Check the unit.")),
   serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1, SERVICE_FACTOR), v.maxValue(1.5, SERVICE_FACTOR)),
   /** Motor efficiency class (IEC 60034-30-1); adjustments stored before it parse as IE3. */
   ieClass: v.optional(v.picklist(IE_CLASSES), DEFAULT_IE_CLASS),

@@ -137,7 +137,7 @@ export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<type
   const npshaAtDuty = evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - duty.flow) < Math.abs(best.flow - duty.flow) ? p : best), evaluation.npsha[0]);
   return {
     methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
-    npshAvailable: npshaAtDuty?.y,
+    npshAvailable: npshaAtDuty ? Math.max(0, npshaAtDuty.y) : undefined, // below zero (a suction lift past the barometric head): no pump passes, as at zero
     requiredNpshMargin: input.npshMargin,
     density: evaluation.fluid.density,
     minSpeedRatio: 0.3,

@@ -5,7 +5,7 @@ import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, 
 import { decimalField } from "../shared/decimal";
 import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_MAGNITUDE, newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -35,7 +35,14 @@ export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): stri
 export type FormErrors = Record<string, string>;
 
 function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { optional?: boolean; label: string }): number | null {
-  return decimalField(f.get(key), key, opts.label, errors, !opts.optional); // the forms' strict reader (shared/decimal.ts)
+  const n = decimalField(f.get(key), key, opts.label, errors, !opts.optional); // the forms' strict reader (shared/decimal.ts)
+  if (n === null) return null;
+  // Typed values past the schema's bound would overflow on the way to SI (1e308 kPa): refused here, by field.
+  if (Math.abs(n) > MAX_MAGNITUDE) {
+    errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: check the unit.`;
+    return null;
+  }
+  return n;
 }
 
 export type FormLike = { get(name: string): FormDataEntryValue | null };
