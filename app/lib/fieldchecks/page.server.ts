@@ -42,7 +42,7 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
       arrangement: frozen.adjustment.arrangement,
       dutyPumps: frozen.adjustment.dutyPumps,
       fingerprint: selection.fingerprint,
-      frozen,
+      frozen: forTheField(frozen),
     },
     history: history.checks.map((check) => ({
       id: check.id,
@@ -60,4 +60,14 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
     fields,
     amends,
   };
+}
+
+/**
+ * What the field page and the phone need of a frozen selection to judge a check (offline too): the system, its
+ * curve, the pump, the adjustment and the result. Not the duty cycle's energy, the purchase price or the life-cycle
+ * cost: a contractor of another workspace reads this page, and the owner's commercial figures are not theirs.
+ */
+function forTheField<F extends { energy?: unknown }>(frozen: F): Omit<F, "energy"> {
+  const { energy: _energy, ...rest } = frozen;
+  return rest;
 }

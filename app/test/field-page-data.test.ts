@@ -1,0 +1,23 @@
+// What the field page sends to the browser of a frozen selection: what a check is judged with, not the
+// owner's commercial figures (purchase price, duty-cycle energy, life-cycle cost). Product rule: the page is
+// read by contractors of other workspaces. Real MariaDB through the route's loader.
+import { afterAll, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import { call, makeMember } from "./harness";
+import { frozenFixture, storeSelection } from "./fieldcheck-fixture";
+import * as fieldForm from "~/routes/field.selections.$id";
+
+afterAll(() => closeDb());
+
+test("GET /field/selections/:id: the frozen selection comes without its energy, purchase price and life-cycle cost; the pump and result are there", async () => {
+  const m = await makeMember("engineer");
+  const energy = { purchasePrice: 2450.5, lcc: { total: 98765.4, yearly: [], cumulative: [] }, annualCost: 1234.5 };
+  const { selectionId } = await storeSelection(m.workspaceId, m.userId, { ...frozenFixture(), energy } as never, "Priced");
+  const r = await call(fieldForm.loader as never, { path: `/field/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
+  expect(r.status).toBe(200);
+  const body = JSON.stringify(r.body);
+  for (const secret of ["purchasePrice", "2450.5", "98765.4", '"lcc"']) expect(body, secret).not.toContain(secret);
+  const frozen = (r.body as { selection: { frozen: Record<string, unknown> } }).selection.frozen;
+  expect(Object.keys(frozen)).toEqual(expect.arrayContaining(["system", "pump", "adjustment", "result"]));
+  expect(frozen).not.toHaveProperty("energy");
+});
