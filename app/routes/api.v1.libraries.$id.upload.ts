@@ -5,7 +5,7 @@ import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries";
 import { AnalysisFailed, analyseForImport } from "~/lib/libraries/upload-analysis.server";
 import { runImport } from "~/lib/libraries/import-run.server";
-import { badRequest, problem } from "~/lib/shared/problem.server";
+import { badRequest, methodNotAllowed, problem } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { discardUpload, getUploadMeta } from "~/lib/libraries/uploads.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
@@ -18,6 +18,7 @@ class MappingRefused extends Error {}
 // Without import=1: stores the file and returns the validation report (problems named by line and column,
 // the mapping used). With import=1: imports the good curves as a new revision and returns it.
 export async function action({ request, params }: Route.ActionArgs) {
+  if (request.method !== "POST") return methodNotAllowed("POST"); // an action runs on any method but GET: PUT/PATCH/DELETE are not ours
   const c = await requireApi(request, "library.write");
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("Library id must be a number.");

@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemWorkbench } from "~/lib/projects";
 import { SystemInputSchema } from "~/lib/projects/hydraulics";
-import { badRequest, notFound } from "~/lib/shared/problem.server";
+import { badRequest, methodNotAllowed, notFound } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
@@ -12,6 +12,7 @@ import { renderDeep, renderUnits } from "~/lib/shared/units";
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
 // unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout.
 export async function action({ request, params }: Route.ActionArgs) {
+  if (request.method !== "POST") return methodNotAllowed("POST"); // an action runs on any method but GET: PUT/PATCH/DELETE are not ours
   const c = await requireApi(request, "project.read");
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("System id must be a number.");

@@ -50,3 +50,14 @@ test("the method a resource route does not take: 405 problem+json naming the one
     }
   }
 });
+
+test("PUT, PATCH and DELETE on the API's POST actions: 405 problem+json with Allow: POST, nothing run (DELETE /api/v1/libraries/:id/upload used to store an upload)", async () => {
+  for (const file of ["api.v1.libraries.$id.upload.ts", "api.v1.systems.$id.preview.ts"]) {
+    const mod = modules[`../routes/${file}`];
+    for (const method of ["PUT", "PATCH", "DELETE"]) {
+      const r = await call(mod.action as never, { path: "/x", method, params: { id: "1" }, headers: { origin: "http://127.0.0.1:3999", authorization: "Bearer nobody" } });
+      expect(r.status, `${method} ${file}`).toBe(405);
+      expect(r.headers.get("allow"), `${method} ${file}`).toBe("POST");
+    }
+  }
+});
