@@ -9,14 +9,18 @@ import * as fieldForm from "~/routes/field.selections.$id";
 
 afterAll(() => closeDb());
 
-test("GET /field/selections/:id: the frozen selection comes without its energy, purchase price and life-cycle cost; the pump and result are there", async () => {
+test("GET /field/selections/:id: the frozen selection comes without its energy, purchase price, life-cycle cost and yearly energy cost; the pump and result are there", async () => {
   const m = await makeMember("engineer");
   const energy = { purchasePrice: 2450.5, lcc: { total: 98765.4, yearly: [], cumulative: [] }, annualCost: 1234.5 };
+  expect(frozenFixture().result.figures?.annualCost, "the fixture has a yearly energy cost to hide").toBeGreaterThan(0);
   const { selectionId } = await storeSelection(m.workspaceId, m.userId, { ...frozenFixture(), energy } as never, "Priced");
   const r = await call(fieldForm.loader as never, { path: `/field/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
   expect(r.status).toBe(200);
   const body = JSON.stringify(r.body);
   for (const secret of ["purchasePrice", "2450.5", "98765.4", '"lcc"']) expect(body, secret).not.toContain(secret);
+  const figures = (r.body as { selection: { frozen: { result: { figures: { annualCost: unknown; motor: { annualCost: unknown } } } } } }).selection.frozen.result.figures;
+  expect(figures.annualCost).toBeNull(); // the owner's tariff at work
+  expect(figures.motor.annualCost).toBeNull();
   const frozen = (r.body as { selection: { frozen: Record<string, unknown> } }).selection.frozen;
   expect(Object.keys(frozen)).toEqual(expect.arrayContaining(["system", "pump", "adjustment", "result"]));
   expect(frozen).not.toHaveProperty("energy");

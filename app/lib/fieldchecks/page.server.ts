@@ -67,7 +67,9 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
  * curve, the pump, the adjustment and the result. Not the duty cycle's energy, the purchase price or the life-cycle
  * cost: a contractor of another workspace reads this page, and the owner's commercial figures are not theirs.
  */
-function forTheField<F extends { energy?: unknown }>(frozen: F): Omit<F, "energy"> {
+function forTheField<F extends { energy?: unknown; result: { figures: { annualCost: number | null; motor: { annualCost: number | null } } | null } }>(frozen: F): Omit<F, "energy"> {
   const { energy: _energy, ...rest } = frozen;
-  return rest;
+  const figures = rest.result.figures;
+  // The yearly energy cost too (the owner's tariff): the energy in kWh stays, it is physics, not price.
+  return figures ? { ...rest, result: { ...rest.result, figures: { ...figures, annualCost: null, motor: { ...figures.motor, annualCost: null } } } } : rest;
 }
