@@ -57,11 +57,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     return Number.isFinite(x) && x > 0 ? fromChosen(sys, q, x) : undefined;
   };
   const sort = qp("sort");
+  const speedAsked = decimalOrNaN(qp("speed"));
   const filters = {
     q: qp("q").slice(0, 80) || undefined,
     type: qp("type").slice(0, 40) || undefined,
     size: qp("size").slice(0, 40) || undefined,
-    speed: Number(qp("speed")) > 0 ? Number(qp("speed")) : undefined,
+    speed: speedAsked > 0 ? speedAsked : undefined, // junk, 0x10 or an ambiguous 1,500: no filter
     flow: numIn("flow", "flow"),
     head: numIn("head", "head"),
     sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",

@@ -37,7 +37,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
   const maxPower = decimalOrNaN(q("maxPower")); // the forms' strict reader: junk or an ambiguous 1,500 means no filter
-  const speed = Number(q("speed"));
+  const speed = decimalOrNaN(q("speed")); // the forms' strict reader: junk means no filter
   const methods = query.method.filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
   const filters = {
     type: q("type").slice(0, 40) || undefined,

@@ -90,6 +90,12 @@ describe("a library's models a page at a time", () => {
     expect((await load(bigId, "?page=99999")).paging.page).toBe(3);
   });
 
+  test("a speed filter that is no number (0x10, which Number() reads as 16; an ambiguous 1,500) filters nothing; 2900 keeps the models that run at it", async () => {
+    for (const q of ["?speed=0x10", "?speed=1,500", "?speed=abc"]) expect((await load(bigId, q)).paging.total, q).toBe(MODELS);
+    expect((await load(bigId, "?speed=2900")).paging.total).toBe(MODELS); // every invented model has a 2900 rpm curve (big-library.ts)
+    expect((await load(bigId, "?speed=16")).paging.total).toBe(0); // none near 16 rpm: the filter works when it is a number
+  });
+
   test("the model asked for is shown with exactly its own curves and points, as the stored revision has them", async () => {
     const third = await load(bigId, "?page=3");
     const want = third.models[7];

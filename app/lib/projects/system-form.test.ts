@@ -51,3 +51,16 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
     expect(read({ ...energy, "energy.step.0.hours": "1000" }, SI_UNITS).input!.energy!.profile).toEqual([{ flowFraction: 1, hours: 1000 }]);
   });
 });
+
+describe("readSystemForm: water outside the range its properties cover (engine fluids.ts: 0–100 °C)", () => {
+  it("is refused at the temperature field when the form is sent, with what to do; 100 °C is taken, 100.1 °C is not; a user-defined fluid may be hotter", () => {
+    const hot = read({ temperature: "100.1" }, SI_UNITS);
+    expect(hot.input).toBeNull();
+    expect(hot.errors.temperature).toBe("Water is covered from 0.000 °C to 100 °C: for a temperature outside it, describe the liquid as a user-defined fluid.");
+    expect(read({ temperature: "100" }, SI_UNITS).input!.temperatureC).toBe(100);
+    expect(read({ temperature: "-0.1" }, SI_UNITS).errors.temperature).toMatch(/^Water is covered/);
+    const oil = read({ temperature: "120", fluidKind: "custom", fluidName: "Thermal oil", density: "900", viscosity: "0.01", vaporPressure: "0" }, SI_UNITS);
+    expect(oil.errors).toEqual({});
+    expect(oil.input!.temperatureC).toBe(120);
+  });
+});

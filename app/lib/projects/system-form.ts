@@ -1,7 +1,8 @@
 // The system editor's form codec: SystemInput (SI) ⇄ form fields in the user's units.
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
-import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
+import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
+import { qt } from "~/engine/quantityText";
 import { decimalField } from "../shared/decimal";
 import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
@@ -140,6 +141,12 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
     },
     energy: readEnergyForm(f, errors),
   };
+  // Water's properties are tabulated for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
+  // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would fall
+  // back to the default system.)
+  if (raw.fluid.kind === "water" && (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max)) {
+    errors.temperature ??= `Water is covered from ${qt("temperature", WATER_RANGE_C.min)} to ${qt("temperature", WATER_RANGE_C.max)}: for a temperature outside it, describe the liquid as a user-defined fluid.`;
+  }
   const r = v.safeParse(SystemInputSchema, raw);
   if (!r.success) {
     for (const issue of r.issues) {
