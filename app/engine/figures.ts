@@ -93,13 +93,28 @@ export interface OperatingFigures {
     /** NPSHa/NPSHr (dimensionless) */
     marginRatio: number | null;
     requiredMargin: number;
-    status: "ok" | "low-margin" | "cavitation-risk" | "unknown";
+    status: NpshStatus;
   } | null;
   /** Largest shaft power on the curve for this fluid: W at flow m³/s, as far as power is known (see MaxShaftPower). */
   maxPower: MaxShaftPower | null;
   motor: { rating: number; serviceFactor: number; limit: number; nonOverloading: boolean | null; loadAtDuty: number | null } | null;
   energy: { inputPower: number; annualEnergy: number; annualEnergyKWh: number; annualCost: number } | null;
   warnings: EngineWarning[];
+}
+
+export type NpshStatus = "ok" | "low-margin" | "cavitation-risk" | "unknown";
+
+/**
+ * NPSH status from the margin ratio NPSHa/NPSHr (common practice): below 1 a cavitation risk, below the wanted
+ * margin a low margin, else ok; unknown without a ratio.
+ * @param marginRatio NPSHa / NPSHr (dimensionless), null when NPSHr is not known
+ * @param requiredMargin the wanted ratio (dimensionless, ≥ 1)
+ */
+export function npshStatus(marginRatio: number | null, requiredMargin: number): NpshStatus {
+  if (marginRatio === null) return "unknown";
+  requireFinite("marginRatio", marginRatio);
+  requirePositive("requiredMargin", requiredMargin);
+  return marginRatio < 1 ? "cavitation-risk" : marginRatio < requiredMargin ? "low-margin" : "ok";
 }
 
 /** The largest shaft power found on a curve, and how far along the curve power is known. */
@@ -184,8 +199,8 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
       density: rho, staticSuctionHead: input.suction.staticSuctionHead, suctionLoss: input.suction.suctionLoss });
     const required = npshrAt(c, flow);
     const marginRatio = required !== null && required > 0 ? available / required : null;
-    let status: "ok" | "low-margin" | "cavitation-risk" | "unknown" = "unknown";
-    if (required !== null) status = available < required ? "cavitation-risk" : (marginRatio as number) < requiredMargin ? "low-margin" : "ok";
+    let status: NpshStatus = "unknown";
+    if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
     if (available <= 0) status = "cavitation-risk";
     if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${qt("head", available)} is below NPSHr${required !== null ? ` ${qt("head", required)}` : ""}: cavitation risk` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${(marginRatio as number).toFixed(2)} is below the required ${requiredMargin}` });

@@ -87,18 +87,18 @@ function solveInner(
   }
   qs.push(knots[knots.length - 1]);
   const gs = qs.map(g);
-  const roots: { x: number; method: "brent" | "bisection"; iterations: number }[] = [];
+  const roots: { x: number; fx: number; method: "brent" | "bisection"; iterations: number }[] = [];
   const xtol = 1e-13 * c.flowMax;
   let iterations = 0;
   for (let i = 0; i < qs.length; i++) {
     if (gs[i] === 0) {
-      roots.push({ x: qs[i], method: "brent", iterations: 0 });
+      roots.push({ x: qs[i], fx: 0, method: "brent", iterations: 0 });
       continue;
     }
     if (i < qs.length - 1 && gs[i] * gs[i + 1] < 0) {
       const r = brent(g, qs[i], qs[i + 1], xtol, maxIt);
       if (r) {
-        roots.push({ x: r.x, method: r.method, iterations: r.iterations });
+        roots.push({ x: r.x, fx: r.fx, method: r.method, iterations: r.iterations });
         iterations += r.iterations;
       }
     }
@@ -125,12 +125,10 @@ function solveInner(
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re
   // to the turbulent correlation at Re 2000, see headLoss.ts), and the pump's head lies inside the step. The
   // curves never meet; the flow there is unsettled. Said with the numbers, the point kept (the best estimate).
-  const hSys = (q: number) => systemHead(q);
-  const residual = Math.abs(op.head - hSys(op.flow));
-  if (residual > 1e-6 * Math.max(1, Math.abs(op.head))) {
+  if (Math.abs(chosen.fx) > 1e-6 * Math.max(1, Math.abs(op.head))) { // fx: pump − system head at the root
     const d = Math.max(op.flow * 1e-9, 1e-15);
     warnings.push({ code: "system-curve-jump",
-      message: `the pump and system curves do not meet at ${qt("flow", op.flow)}: the system's head jumps there from ${qt("head", hSys(op.flow - d))} to ${qt("head", hSys(op.flow + d))} (friction at the laminar–turbulent change) and the pump's ${qt("head", op.head)} lies between; the flow will not settle steadily near this point` });
+      message: `the pump and system curves do not meet at ${qt("flow", op.flow)}: the system's head jumps there from ${qt("head", systemHead(op.flow - d))} to ${qt("head", systemHead(op.flow + d))} (friction at the laminar–turbulent change) and the pump's ${qt("head", op.head)} lies between; the flow will not settle steadily near this point` });
   }
   if (op.flow >= c.flowMax * 0.98 && c.flowMax > 0) {
     warnings.push({ code: "near-curve-end", message: "operating point is at the far end of the published curve (runout)" });

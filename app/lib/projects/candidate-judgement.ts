@@ -9,6 +9,7 @@ import {
   motorEfficiency,
   npshAvailable,
   npshrAt,
+  npshStatus,
   polesForSpeed,
   scaleBySpeed,
   scaleByTrim,
@@ -24,6 +25,7 @@ import {
   MOTOR_EFFICIENCY_SOURCE,
   type CatalogueLimits,
   type IeClass,
+  type NpshStatus,
   type OperatingPointResult,
   type PreparedSystem,
   type PumpCurve,
@@ -78,7 +80,7 @@ export type BandPoint = {
 
 /** NPSH judged where the pump runs: the design point and each edge of the band; the lowest margin decides. */
 export type NpshJudgement = {
-  status: "ok" | "low-margin" | "cavitation-risk" | "unknown";
+  status: NpshStatus;
   /** The lowest NPSHa / NPSHr found (dimensionless), and where; null when NPSHr is known nowhere. */
   marginRatio: number | null;
   at: string | null;
@@ -104,8 +106,7 @@ export function npshOverBand(design: number | null, band: readonly BandPoint[], 
       at = where;
     }
   }
-  const status = marginRatio === null ? "unknown" : marginRatio < 1 ? "cavitation-risk" : marginRatio < requiredMargin ? "low-margin" : "ok";
-  return { status, marginRatio, at, rule };
+  return { status: npshStatus(marginRatio, requiredMargin), marginRatio, at, rule };
 }
 
 export type MotorFigures = {
