@@ -39,7 +39,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { qt } from "./quantityText.ts";
+import { fmtPct, qt } from "./quantityText.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -228,7 +228,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         // the point on the lowest-speed curve at this flow (affinity laws).
         const q1 = q / minSpeed;
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
-        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${(minSpeed * 100).toFixed(0)} % and lies off the curve there`, head);
+        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there`, head);
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
@@ -247,14 +247,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     }
     if (eta === null) eta = (rho * G0 * q * head) / shaft;
     const x = shaft / rating;
-    if (x < MOTOR_PART_LOAD[0][0]) warnings.push({ code: "motor-very-light-load", message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${(x * 100).toFixed(1)} % load: part-load efficiencies below 10 % load are taken at their 10 % values` });
+    if (x < MOTOR_PART_LOAD[0][0]) warnings.push({ code: "motor-very-light-load", message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPct(x)} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
       energyKWh: (electricalPower * s.hours) / 1000, status: "ok",
-      message: lowest ? `held at the lowest speed ${(n * 100).toFixed(0)} %, throttled` : vfd ? `${(n * 100).toFixed(1)} % speed` : "full speed, throttled",
+      message: lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled",
     };
   });
   const complete = steps.every((s) => s.status === "ok" || s.hours === 0);

@@ -33,7 +33,7 @@ import {
   type SystemCase,
   type Verdict,
 } from "~/engine";
-import { qt } from "~/engine/quantityText";
+import { fmtPct, qt } from "~/engine/quantityText";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -173,12 +173,12 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   if (sp.status === "ok" && sp.ratio) {
     const rated = catalogue?.ratedSpeed ?? null;
     const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(sp.speed != null && rated != null ? { speed: sp.speed, ratedSpeed: rated } : { speedRatio: sp.ratio }) });
-    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${(sp.ratio * 100).toFixed(1)} % speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}`, outside });
+    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${fmtPct(sp.ratio)} speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}`, outside });
   }
   const tr = trimForDuty(ctx.base, per);
   if (tr.status === "ok" && tr.ratio) {
     const outside = catalogueReasons({ diameter: tr.diameter, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: tr.ratio });
-    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${(tr.ratio * 100).toFixed(1)} %${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate`, outside });
+    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${fmtPct(tr.ratio)}${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate`, outside });
   }
   return out;
 }

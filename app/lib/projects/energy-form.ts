@@ -6,7 +6,6 @@ import { DEFAULT_ENERGY_SETTINGS, MAX_PROFILE_STEPS, type EnergySettings } from 
 type FormLike = { get(name: string): FormDataEntryValue | null };
 
 /** A number, or null for blank or bad text (bad text: its message under `key`; the forms' strict reader, shared/decimal.ts). */
-const read = (f: FormLike, key: string, errors: Record<string, string>, label: string): number | null => decimalField(f.get(key), key, label, errors);
 
 /**
  * Reads the energy fields. A form without them (an older page, a script) keeps the stored settings
@@ -20,8 +19,8 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
   if (f.get("energy.profileKind") === "user") {
     profile = [];
     for (let i = 0; i < MAX_PROFILE_STEPS; i++) {
-      const pct = read(f, `energy.step.${i}.pct`, errors, "Flow");
-      const hours = read(f, `energy.step.${i}.hours`, errors, "Hours");
+      const pct = decimalField(f.get(`energy.step.${i}.pct`), `energy.step.${i}.pct`, "Flow", errors);
+      const hours = decimalField(f.get(`energy.step.${i}.hours`), `energy.step.${i}.hours`, "Hours", errors);
       if (pct == null && hours == null) continue;
       if (pct == null || hours == null) {
         errors[`energy.step.${i}.${pct == null ? "pct" : "hours"}`] ??= "Give both the flow (%) and the hours of this step, or neither.";
@@ -31,13 +30,13 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
     }
   }
   const pct = (key: string, label: string, fallback: number) => {
-    const n = read(f, key, errors, label);
+    const n = decimalField(f.get(key), key, label, errors);
     return n == null ? fallback : n / 100;
   };
   return {
     control,
     profile,
-    years: read(f, "energy.years", errors, "Years") ?? base.years,
+    years: decimalField(f.get("energy.years"), "energy.years", "Years", errors) ?? base.years,
     escalation: pct("energy.escalation", "Tariff escalation", base.escalation),
     discountRate: pct("energy.discount", "Discount rate", base.discountRate),
   };

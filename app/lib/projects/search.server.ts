@@ -35,7 +35,6 @@ export const SEARCH_SHOWN = 50;
 export const SEARCH_PAGE_ROWS = 25;
 
 /** Which slice of the judged rows a request returns: page 1.. of `pageSize` rows (out-of-range pages clamp to the nearest). */
-export type SearchPaging = Paging;
 
 type OpenRevision = { libraryId: number; name: string; revisionId: number; own?: boolean };
 /** A curve set with the revision it came from (library name read per request: names may change, revisions do not). */
@@ -160,7 +159,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as SearchPaging };
+  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
