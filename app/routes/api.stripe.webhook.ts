@@ -1,12 +1,12 @@
 import type { Route } from "./+types/api.stripe.webhook";
 import { handleStripeWebhook } from "~/lib/billing";
-import { problem } from "~/lib/shared/problem.server";
+import { methodNotAllowed, problem } from "~/lib/shared/problem.server";
 
 // POST /api/stripe/webhook — Stripe's (or the local stand-in's) signed events. No session, no
 // CSRF origin check (exempt in csrf.server.ts): the Stripe-Signature header is the credential.
 // The body is read raw, exactly as signed; the middleware caps it at 512 KB.
 export async function action({ request }: Route.ActionArgs) {
-  if (request.method !== "POST") return methodNotAllowed();
+  if (request.method !== "POST") return onlyPost();
   const raw = await request.text();
   const out = await handleStripeWebhook(raw, request.headers.get("stripe-signature"));
   if (out.problem) return problem(out.body as { title: string; status: number });
@@ -14,9 +14,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export function loader() {
-  return methodNotAllowed();
+  return onlyPost();
 }
 
-function methodNotAllowed() {
-  return problem({ title: "Method Not Allowed", status: 405, detail: "Stripe posts events here." }, { Allow: "POST" });
-}
+const onlyPost = () => methodNotAllowed("POST", "Stripe posts events here.");
