@@ -2,7 +2,7 @@ import * as v from "valibot";
 import { Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/libraries.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { deleteLibrary, getLibrary, getModel, listModels, listRevisions, MODEL_PAGE_ROWS, pendingUploads, updateLibrary } from "~/lib/libraries";
+import { deleteLibrary, getLibrary, listRevisions, modelCurves, MODEL_PAGE_ROWS, pendingUploads, revisionModelList, updateLibrary } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, fromChosen, labelOf, renderUnits } from "~/lib/shared/units";
 import { can } from "~/lib/auth/permissions";
@@ -68,7 +68,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",
   };
   const [models, revisions, pending, imports] = await Promise.all([
-    locked ? Promise.resolve([]) : listModels(viewer, id, filters),
+    locked || !lib.currentRevisionId ? Promise.resolve([]) : revisionModelList(lib.currentRevisionId, filters), // lib opened for the viewer above
     locked ? Promise.resolve([]) : listRevisions(id),
     writer ? pendingUploads(id) : Promise.resolve([]),
     writer ? recentImports(id) : Promise.resolve([]),
@@ -77,8 +77,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const shown = models.slice(paging.first, paging.first + MODEL_PAGE_ROWS);
   // The model asked for when it is one of the listed (filtered) models of the current revision, else the page's first.
   const asked = query.model ? models.find((mm) => mm.id === query.model) : undefined;
-  const modelId = asked?.id ?? shown[0]?.id;
-  const selected = modelId ? await getModel(viewer, modelId) : null;
+  const chosen = asked ?? shown[0];
+  // One of the listed models of the revision just read: only its curve sets are read (no second access check).
+  const selected = chosen ? { model: chosen, curves: await modelCurves(lib.currentRevisionId!, chosen.id) } : null;
   return {
     lib: { id: lib.id, name: lib.name, description: lib.description, visibility: lib.visibility, owner: lib.ownerName, access: lib.access },
     locked,

@@ -54,8 +54,11 @@ const revisionModels = promiseCache<number, readonly ListedModel[]>({ max: 32, m
 export async function listModels(viewer: Viewer, libraryId: number, f: ModelFilters = {}): Promise<ListedModel[]> {
   const lib = await getLibrary(viewer, libraryId);
   if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
-  if (!lib.currentRevisionId) return [];
-  const revisionId = lib.currentRevisionId;
+  return lib.currentRevisionId ? revisionModelList(lib.currentRevisionId, f) : [];
+}
+
+/** The models of a revision, filtered and sorted: for a caller that has already opened its library for the viewer. */
+export async function revisionModelList(revisionId: number, f: ModelFilters = {}): Promise<ListedModel[]> {
   const all = await revisionModels.get(revisionId, () => readRevisionModels(revisionId));
   const has = (a: string, b?: string) => !b || a.toLowerCase().includes(b.toLowerCase());
   let list = all.filter(
