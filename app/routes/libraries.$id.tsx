@@ -20,7 +20,7 @@ import { PageHead } from "~/components/PageHead";
 import { useFormResult } from "~/components/useFormResult";
 import { fmtUtc, fmtInt } from "~/lib/shared/format";
 import { pageOf } from "~/lib/shared/paging";
-import { decimalOrNaN } from "~/lib/shared/decimal";
+import { positiveFilter } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.lib.name ?? "Library"} · Dutymark` }];
@@ -52,17 +52,17 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const query = readQuery(url, LibraryQuery);
   const sys = m.user.units;
   const qp = (k: "q" | "type" | "size" | "speed" | "flow" | "head" | "sort") => query[k];
+  // The forms' strict reader: junk, 0x10 or an ambiguous 1,500 means no filter.
   const numIn = (k: "flow" | "head", q: "flow" | "head") => {
-    const x = decimalOrNaN(qp(k)); // the forms' strict reader: junk or an ambiguous 1,500 means no filter
-    return Number.isFinite(x) && x > 0 ? fromChosen(sys, q, x) : undefined;
+    const x = positiveFilter(qp(k));
+    return x === undefined ? undefined : fromChosen(sys, q, x);
   };
   const sort = qp("sort");
-  const speedAsked = decimalOrNaN(qp("speed"));
   const filters = {
     q: qp("q").slice(0, 80) || undefined,
     type: qp("type").slice(0, 40) || undefined,
     size: qp("size").slice(0, 40) || undefined,
-    speed: speedAsked > 0 ? speedAsked : undefined, // junk, 0x10 or an ambiguous 1,500: no filter
+    speed: positiveFilter(qp("speed")),
     flow: numIn("flow", "flow"),
     head: numIn("head", "head"),
     sort: (sort === "flow" || sort === "head" ? sort : "name") as "name" | "flow" | "head",

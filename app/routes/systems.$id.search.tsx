@@ -13,7 +13,7 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
-import { decimalOrNaN } from "~/lib/shared/decimal";
+import { positiveFilter } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
@@ -36,14 +36,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sys = m.user.units;
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
-  const maxPower = decimalOrNaN(q("maxPower")); // the forms' strict reader: junk or an ambiguous 1,500 means no filter
-  const speed = decimalOrNaN(q("speed")); // the forms' strict reader: junk means no filter
+  // The forms' strict reader: junk or an ambiguous 1,500 means no filter.
+  const maxPower = positiveFilter(q("maxPower"));
   const methods = query.method.filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
   const filters = {
     type: q("type").slice(0, 40) || undefined,
     size: q("size").slice(0, 40) || undefined,
-    speed: Number.isFinite(speed) && speed > 0 ? speed : undefined,
-    maxPowerW: maxPower > 0 && maxPower <= MAX_MAGNITUDE ? fromChosen(sys, "power", maxPower) : undefined, // past it W would overflow (1e308 kW)
+    speed: positiveFilter(q("speed")),
+    maxPowerW: maxPower !== undefined && maxPower <= MAX_MAGNITUDE ? fromChosen(sys, "power", maxPower) : undefined, // past it W would overflow (1e308 kW)
     methods: methods.length ? methods : undefined,
     allowBeyondCatalogue: query.beyond,
   };

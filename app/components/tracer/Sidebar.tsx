@@ -1,12 +1,11 @@
 // The tracer's controls beside the picture: axes and panels (calibration with its residual), and
 // the curves (impeller curves and iso-efficiency contours) being traced.
 import type { Calibration, Quantity } from "~/lib/tracer";
-import { decimalOrNaN } from "~/lib/shared/decimal";
+import { decimalOrNaN as num } from "~/lib/shared/decimal";
 import type { Unit } from "~/lib/import";
 import { QUANTITY_LABEL, UNITS, type Curve, type Panel, type TracerState } from "./model";
 
-// The forms' strict reader (shared/decimal.ts): blank, junk and an ambiguous 1,500 are NaN (not set yet).
-const num = (s: string) => decimalOrNaN(s);
+// num: the forms' strict reader (shared/decimal.ts): blank, junk and an ambiguous 1,500 are NaN (not set yet).
 const show = (x: number) => (Number.isFinite(x) ? String(x) : "");
 
 function RefRows(props: { refs: Panel["refs"]; axis: "x" | "y"; testid: string; onValue: (i: number, v: number) => void; onRemove: (i: number) => void }) {

@@ -2,7 +2,7 @@
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
 import { fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
-import { decimalField } from "../shared/decimal";
+import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
 import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
@@ -150,7 +150,7 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
     const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
     if (x === null) return null;
     // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
-    if (!(Math.abs(x) <= 1e12)) {
+    if (!(Math.abs(x) <= MAX_MAGNITUDE)) {
       errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}: check the value and its unit.`;
       return null;
     }

@@ -6,12 +6,10 @@ import { fluidAt, innerDiameter, material as materialOf, STANDARD_ATMOSPHERE, DE
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
 import { qt } from "~/engine/quantityText";
+import { MAX_MAGNITUDE } from "../shared/decimal";
 
-/**
- * Largest magnitude of any number in a system, SI (a head of 10⁴ m or 10⁹ Pa is already far past any pump):
- * every value stays convertible to every display unit (factors up to ~10⁷) without overflowing a double.
- */
-export const MAX_MAGNITUDE = 1e12;
+// Largest magnitude of any number in a system, SI, as of any number typed (shared/decimal.ts).
+export { MAX_MAGNITUDE };
 const num = (label: string) =>
   v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`), v.check((x) => Math.abs(x) <= MAX_MAGNITUDE, `${label} is far outside any pump system: check the unit.`));
 const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));

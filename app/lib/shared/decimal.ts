@@ -56,6 +56,19 @@ export function readDecimal(raw: unknown, opts: { spaceGroups?: boolean } = {}):
   return { kind: "number", value: value === 0 ? 0 : value }; // -0 reads as 0
 }
 
+/**
+ * Largest magnitude of a number typed into a form, and of any number in a stored system (SI): a head of 10⁴ m
+ * or 10⁹ Pa is already far past any pump, and every value stays convertible to every display unit (factors up
+ * to ~10⁷) without overflowing a double.
+ */
+export const MAX_MAGNITUDE = 1e12;
+
+/** A list filter's number: the value when it is a number above zero, else undefined (junk, blank, 1,500, 0 or below: no filter). */
+export function positiveFilter(raw: unknown): number | undefined {
+  const x = decimalOrNaN(raw);
+  return x > 0 ? x : undefined;
+}
+
 /** The number, or NaN for anything else (blank included): for filters where junk means "no filter". */
 export function decimalOrNaN(raw: unknown): number {
   const r = readDecimal(raw);
