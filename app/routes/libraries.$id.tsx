@@ -8,7 +8,7 @@ import { fmtFlow, fmtHead, fmtPct, fmtPower, fromChosen, labelOf, renderUnits } 
 import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, QueryId, QueryText, readForm, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { VISIBILITIES } from "~/lib/shared/constants";
-import { Field, Notice } from "~/components/forms";
+import { Field, FormOutcome, Notice } from "~/components/forms";
 import { AccessBadge, curveLabel, fmtBytes } from "~/components/library-bits";
 import { UploadDrop } from "~/components/UploadDrop";
 import { ImportList } from "~/components/ImportList";
@@ -150,8 +150,8 @@ export default function LibraryPage() {
         title={d.lib.name}
         badge={<AccessBadge access={d.lib.access} visibility={d.lib.visibility} />}
         line={[`by ${d.lib.owner}`, d.lib.description]}
-        outcome={{ notice, error: errors._form }}
       />
+      <FormOutcome notice={notice} error={errors._form} />
       {d.locked ? (
         <section className="panel">
           <p className="caution">

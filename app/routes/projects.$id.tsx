@@ -6,7 +6,7 @@ import { copyProject, createSystem, getProject, listSelections, listSystems, set
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { FreeText, invalid, Name, readForm, readId } from "~/lib/shared/forms.server";
-import { Field } from "~/components/forms";
+import { Field, FormOutcome } from "~/components/forms";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
@@ -80,9 +80,9 @@ export default function ProjectPage() {
         title={d.project.name}
         badge={d.project.archived ? <span className="text-sm font-normal text-slate-500">(archived)</span> : null}
         line={[d.project.site, d.project.description]}
-        outcome={{ notice, error: errors._form }}
       />
       {!d.canWrite ? <ReadOnlyNotice what="project" role={d.role} /> : null}
+      <FormOutcome notice={notice} error={errors._form} />
       <section className="panel">
         <h2 className="text-lg font-semibold">Systems</h2>
         {d.systems.length === 0 ? (
