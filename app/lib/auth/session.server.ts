@@ -34,7 +34,7 @@ function makeLucia() {
         emailVerified: Boolean(a.emailVerified),
         unitSystem: a.unitSystem,
         /** The display unit of every quantity: the preset with the user's overrides (unknown ids fall back to the preset). */
-        units: unitsOf(a.unitSystem, picks),
+        units: { ...unitsOf(a.unitSystem), ...picks }, // picks already checked by picksOf
         /** What the user picked per quantity (the account page's selects; the rest follows the preset). */
         unitPicks: picks,
         currentWorkspaceId: a.currentWorkspaceId,

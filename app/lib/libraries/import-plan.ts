@@ -82,24 +82,28 @@ function writeLines(values: Float64Array, fields: number): Lines {
   return { bytes: bytes.slice(0, o), ends };
 }
 
-/** Curve set i's figures as its LOAD DATA line gives them: speed, impeller, flow range, head range (max, min) of the points as planned, point count. */
-export function setFigures(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">, i: number): [number, number, number, number, number, number, number] {
-  const v = plan.values;
-  const a = plan.starts[i], b = plan.starts[i + 1];
-  let lo = Infinity, hi = -Infinity;
-  for (let k = a; k < b; k++) {
-    const h = v[k * POINT_WIDTH + 1];
-    if (h < lo) lo = h;
-    if (h > hi) hi = h;
-  }
-  return [plan.setSpeed[i], plan.setImpeller[i], v[a * POINT_WIDTH], v[(b - 1) * POINT_WIDTH], hi, lo, b - a];
-}
-
-/** The curve sets' lines (setFigures of each). */
+/** The curve sets' lines: speed, impeller, flow range, head range (max, min) of the points as planned, point count. */
 export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">): Lines {
   const sets = plan.starts.length - 1;
+  const v = plan.values;
   const fields = new Float64Array(sets * 7);
-  for (let i = 0; i < sets; i++) fields.set(setFigures(plan, i), i * 7);
+  for (let i = 0; i < sets; i++) {
+    const a = plan.starts[i], b = plan.starts[i + 1];
+    let lo = Infinity, hi = -Infinity;
+    for (let k = a; k < b; k++) {
+      const h = v[k * POINT_WIDTH + 1];
+      if (h < lo) lo = h;
+      if (h > hi) hi = h;
+    }
+    const o = i * 7;
+    fields[o] = plan.setSpeed[i];
+    fields[o + 1] = plan.setImpeller[i];
+    fields[o + 2] = v[a * POINT_WIDTH];
+    fields[o + 3] = v[(b - 1) * POINT_WIDTH];
+    fields[o + 4] = hi;
+    fields[o + 5] = lo;
+    fields[o + 6] = b - a;
+  }
   return writeLines(fields, 7);
 }
 
