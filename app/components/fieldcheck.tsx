@@ -4,6 +4,7 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
+import { fmtPctLimit } from "~/engine/quantityText";
 import { VERDICT_TEXT, type CheckResult, type Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
@@ -16,7 +17,6 @@ export function FieldCaution() {
   );
 }
 
-const pct = (x: number) => `${(x * 100).toFixed(0)} %`;
 
 /** The grades table the verdict thresholds come from, with its source label. */
 export function GradeTable({ highlight }: { highlight?: string }) {
@@ -38,10 +38,10 @@ export function GradeTable({ highlight }: { highlight?: string }) {
             <tr key={g.id} className={`border-t border-slate-100 ${g.id === highlight ? "font-semibold" : ""}`}>
               <td className="py-1">{g.id}</td>
               <td>
-                −{pct(g.flow[0])} / +{pct(g.flow[1])}
+                −{fmtPctLimit(g.flow[0])} / +{fmtPctLimit(g.flow[1])}
               </td>
               <td>
-                −{pct(g.head[0])} / +{pct(g.head[1])}
+                −{fmtPctLimit(g.head[0])} / +{fmtPctLimit(g.head[1])}
               </td>
             </tr>
           ))}

@@ -2,6 +2,7 @@
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
 import { fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
+import { fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
 import type { UnitChoice } from "../shared/units";
 
@@ -15,7 +16,7 @@ export type Verdict = "pass" | "marginal" | "fail" | "unknown";
 
 /** A grade's rule in words, e.g. "2B: flow −8/+8 %, head −5/+5 % (ISO 9906:2012 …)"; `withSource: false` leaves the source off (the form's select). */
 export function gradeRule(g: ToleranceGrade, { withSource = true } = {}): string {
-  const pct = (x: number) => (x * 100).toFixed(0);
+  const pct = (x: number) => fmtPctLimit(x).replace(" %", ""); // a limit as typed (2.5, not 3), the unit once at the end
   return `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} %${withSource ? ` (${g.source})` : ""}`;
 }
 
