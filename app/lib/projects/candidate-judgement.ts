@@ -25,6 +25,7 @@ import {
   MOTOR_EFFICIENCY_SOURCE,
   type CatalogueLimits,
   type IeClass,
+  type MaxShaftPower,
   type NpshStatus,
   type OperatingPointResult,
   type PreparedSystem,
@@ -199,9 +200,8 @@ export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number;
  */
 export function motorFigures(o: {
   shaftPower: number | null;
-  maxCurvePower: number | null;
-  /** Flow up to which maxCurvePower is known when the curve's power stops short of its end, m³/s (null: to the end). */
-  maxCurvePowerUpTo?: number | null;
+  /** The curve's largest shaft power and how far it is known (the engine's maxShaftPower), null when none is. */
+  maxCurvePower: MaxShaftPower | null;
   pumps: number;
   userRating: number;
   serviceFactor: number;
@@ -214,7 +214,7 @@ export function motorFigures(o: {
 }): MotorFigures {
   const warnings: string[] = [];
   const perPump = o.shaftPower != null ? o.shaftPower / o.pumps : null;
-  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower, maxCurvePowerUpTo: o.maxCurvePowerUpTo, serviceFactor: o.serviceFactor }) : null;
+  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower?.power ?? null, maxCurvePowerUpTo: o.maxCurvePower && !o.maxCurvePower.toEnd ? o.maxCurvePower.upTo : null, serviceFactor: o.serviceFactor }) : null;
   const rating = o.userRating > 0 ? o.userRating : s?.rating ?? null;
   let efficiency: number | null = null;
   if (rating != null) {

@@ -269,8 +269,7 @@ export function evaluateCandidate(
     const k = adj.arrangement === "single" ? 1 : n;
     const motor = motorFigures({
       shaftPower: f.shaftPower != null ? f.shaftPower * k : null,
-      maxCurvePower: f.maxPower?.power ?? null,
-      maxCurvePowerUpTo: f.maxPower && !f.maxPower.toEnd ? f.maxPower.upTo : null,
+      maxCurvePower: f.maxPower,
       pumps: k,
       userRating: adj.motorRating,
       serviceFactor: adj.serviceFactor,
