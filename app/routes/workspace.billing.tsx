@@ -42,8 +42,6 @@ export async function loader({ request }: Route.LoaderArgs) {
     listLibraries(viewerOf(m)),
     state.plan === "free" ? paidPlanPrice() : null,
   ]);
-  const invoices = invoiceRead.rows;
-  const invoicesError: string | null = invoiceRead.error;
   // Library names and descriptions only (the listing never carries curves); a member without library.read sees none.
   const shared = libraries.filter((l) => l.access !== "owner" && l.visibility === "shared");
   const checkout = readQuery(request.url, "checkout", 40) || null;
@@ -60,8 +58,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     cancelAtPeriodEnd: state.cancelAtPeriodEnd,
     hasSubscription: Boolean(state.subscriptionId && state.status && ["active", "trialing"].includes(state.status)),
     hasCustomer: Boolean(state.customerId),
-    invoices,
-    invoicesError,
+    invoices: invoiceRead.rows,
+    invoicesError: invoiceRead.error as string | null,
     shared: shared.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, access: l.access })),
     // Only words: the success redirect never changes the plan; the verified webhook does.
     checkout: checkout === "done" || checkout === "canceled" ? checkout : null,
