@@ -14,7 +14,7 @@ import type { Route } from "./+types/root";
 import "./app.css";
 import { csrfRefusal } from "~/lib/auth/csrf.server";
 import { getAuth } from "~/lib/auth/session.server";
-import { membershipFor } from "~/lib/auth/guards.server";
+import { authWithWorkspaces } from "~/lib/auth/guards.server";
 import { problem } from "~/lib/shared/problem.server";
 import { requestScope } from "~/lib/shared/request-scope.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
@@ -66,9 +66,9 @@ export const middleware: Route.MiddlewareFunction[] = [
 ];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const auth = await getAuth(request);
-  if (!auth) return { me: null };
-  const { current } = await membershipFor(auth);
+  const signedIn = await authWithWorkspaces(request);
+  if (!signedIn) return { me: null };
+  const { auth, membership: { current } } = signedIn;
   return {
     me: {
       name: auth.user.name || auth.user.email,

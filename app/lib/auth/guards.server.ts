@@ -3,14 +3,14 @@ import type * as v from "valibot";
 import { data, redirect } from "react-router";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
-import { apiTokens, memberships, users, workspaces } from "@db/schema";
-import { getAuth, type Auth } from "./session.server";
+import { apiTokens, memberships, sessions, users, workspaces } from "@db/schema";
+import { getAuth, sessionIdOfRequest, type Auth } from "./session.server";
 import { can, READ_ONLY_PERMISSIONS, type Permission, type Role } from "./permissions";
 import { hashSecret } from "./secrets.server";
 import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
-import { oncePerRequest } from "../shared/request-scope.server";
+import { oncePerRequest, readsShared } from "../shared/request-scope.server";
 import { invalid, readForm } from "../shared/forms.server";
 import { viewerOf, type Viewer } from "./viewer.server";
 
@@ -34,25 +34,56 @@ export async function requireUser(request: Request): Promise<Auth> {
   return auth;
 }
 
+/** A workspace as its members see it in lists, with the member's role. */
+const WORKSPACE_ROW = { id: workspaces.id, name: workspaces.name, slug: workspaces.slug, plan: workspaces.plan, role: memberships.role };
+
 export async function workspacesOf(userId: string) {
   return db()
-    .select({ id: workspaces.id, name: workspaces.name, slug: workspaces.slug, plan: workspaces.plan, role: memberships.role })
+    .select(WORKSPACE_ROW)
     .from(memberships)
     .innerJoin(workspaces, eq(memberships.workspaceId, workspaces.id))
     .where(eq(memberships.userId, userId))
     .orderBy(asc(workspaces.name));
 }
 
-/** The member's current workspace and role (the user's choice, else the first by name). */
-export async function currentMembership(auth: Auth) {
-  const list = await workspacesOf(auth.user.id);
-  const current = list.find((w) => w.id === auth.user.currentWorkspaceId) ?? list[0] ?? null;
-  return { list, current };
+/**
+ * The workspaces of the user whose session is `sessionId`, by name. It needs only the cookie, so a page
+ * starts it beside the session's own check (`requireMember`, the root loader): one round trip to the
+ * database before the page's own reads instead of two. Trusted only through `membershipFor`, which takes
+ * the checked session. Memoised per request scope (a promise, not drizzle's builder, which would run again
+ * on every await).
+ */
+function workspacesOfSession(sessionId: string): Promise<(WorkspaceInfo & { role: Role })[]> {
+  return oncePerRequest(`workspaces-of-session:${sessionId}`, async () =>
+    db()
+      .select(WORKSPACE_ROW)
+      .from(sessions)
+      .innerJoin(memberships, eq(memberships.userId, sessions.userId))
+      .innerJoin(workspaces, eq(memberships.workspaceId, workspaces.id))
+      .where(eq(sessions.id, sessionId))
+      .orderBy(asc(workspaces.name)),
+  );
 }
 
-/** The root loader and the route's loader of one page read the same list: one query per request scope (see request-scope.server.ts). */
-export function membershipFor(auth: Auth): ReturnType<typeof currentMembership> {
-  return oncePerRequest(`membership:${auth.user.id}:${auth.user.currentWorkspaceId ?? ""}`, () => currentMembership(auth));
+/** The member's workspaces and the current one (the user's choice, else the first by name); one list per request scope. */
+export function membershipFor(auth: Auth) {
+  return oncePerRequest(`membership:${auth.session.id}:${auth.user.currentWorkspaceId ?? ""}`, async () => {
+    const list = await workspacesOfSession(auth.session.id);
+    const current = list.find((w) => w.id === auth.user.currentWorkspaceId) ?? list[0] ?? null;
+    return { list, current };
+  });
+}
+
+/**
+ * The signed-in user of this request (or null) with the workspace list read at the same time. Only where
+ * reads are shared (a GET's scope): elsewhere the early list could not be reused and would be a wasted query.
+ */
+export async function authWithWorkspaces(request: Request): Promise<{ auth: Auth; membership: Awaited<ReturnType<typeof membershipFor>> } | null> {
+  const sessionId = readsShared() ? sessionIdOfRequest(request) : null;
+  // Started now, awaited by membershipFor below once the session checks out; if it does not, nobody awaits it.
+  if (sessionId) workspacesOfSession(sessionId).catch(() => {});
+  const auth = await getAuth(request);
+  return auth ? { auth, membership: await membershipFor(auth) } : null;
 }
 
 /**
@@ -60,8 +91,9 @@ export function membershipFor(auth: Auth): ReturnType<typeof currentMembership> 
  * Not signed in → redirect to sign-in; no workspace → redirect to create one; lacking permission → 403.
  */
 export async function requireMember(request: Request, permission?: Permission): Promise<Member> {
-  const auth = await requireUser(request);
-  const { list, current } = await membershipFor(auth);
+  const signedIn = await authWithWorkspaces(request);
+  if (!signedIn) signInRedirect(request);
+  const { auth, membership: { list, current } } = signedIn;
   if (!current) throw redirect("/workspace/new");
   const { role, ...workspace } = current;
   if (permission && !can(role, permission)) {

@@ -165,6 +165,11 @@ export function getAuth(request: Request): Promise<Auth | null> {
   return p;
 }
 
+/** The session id in the request's cookie (not yet checked: `getAuth` checks it). */
+export function sessionIdOfRequest(request: Request): string | null {
+  return sessionIdOf(request.headers.get("cookie") ?? "");
+}
+
 /**
  * The session id in a Cookie header. lucia's reader decodes every cookie and throws on a bad %-escape in
  * any of them (a forged one, or another app's on this host): then only our cookie is read, as ids are written.

@@ -15,10 +15,16 @@ export function requestScope<T>(request: Request, run: () => T): T {
 
 /** `make()` once per request scope and key on reads; outside a scope, or on a write, each call makes its own. */
 export function oncePerRequest<T>(key: string, make: () => T): T {
-  const s = scope.getStore();
-  if (!s || (s.method !== "GET" && s.method !== "HEAD")) return make();
+  if (!readsShared()) return make();
+  const s = scope.getStore()!;
   if (s.memo.has(key)) return s.memo.get(key) as T;
   const made = make();
   s.memo.set(key, made);
   return made;
+}
+
+/** True inside a scope whose lookups are shared (a GET or HEAD): what `oncePerRequest` makes now is reused. */
+export function readsShared(): boolean {
+  const s = scope.getStore();
+  return !!s && (s.method === "GET" || s.method === "HEAD");
 }
