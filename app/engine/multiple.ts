@@ -55,14 +55,23 @@ export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arr
 
 /**
  * Flow through each pump for a combined operating flow, m³/s (parallel: Q/n; series: Q).
+ * With `single` (one pump's curve, as given to `combinePumps`): a flow inside the combined curve's range is
+ * kept inside the one pump's. In floating point n·q/n need not give back q (3 × 0.000651955… / 3 lands one
+ * ulp above), so a point at the combined curve's end would fall just off the pump's curve and every figure
+ * read there (efficiency, power, NPSHr) would be refused; the combined curve's end is the pump's end.
  * @param totalFlow combined flow, m³/s
  * @param arrangement mode and counts (unitless; counts dimensionless)
+ * @param single one pump's curve (SI), optional
  */
-export function flowPerPump(totalFlow: number, arrangement: Arrangement): number {
+export function flowPerPump(totalFlow: number, arrangement: Arrangement, single?: PumpCurve): number {
   const q = requireNonNegative("totalFlow", totalFlow);
   if (!arrangement || typeof arrangement !== "object") throw new EngineInputError("arrangement", "is required");
   const n = requireInteger("arrangement.duty", arrangement.duty, 1);
   const mode = arrangement.mode;
   if (mode !== "parallel" && mode !== "series") throw new EngineInputError("arrangement.mode", `must be 'parallel' or 'series' (got ${String(mode)})`);
-  return mode === "parallel" ? q / n : q;
+  if (mode === "series") return q;
+  const share = q / n;
+  // The combined curve's range as combinePumps builds it (each point's flow × n): the same products, so exact.
+  if (!single || q < single.flowMin * n || q > single.flowMax * n) return share;
+  return Math.min(single.flowMax, Math.max(single.flowMin, share));
 }

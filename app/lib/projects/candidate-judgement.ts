@@ -15,6 +15,7 @@ import {
   scaleByTrim,
   shaftPowerAt,
   efficiencyAt,
+  flowPerPump,
   solveOperatingPoint,
   speedForDuty,
   suggestMotor,
@@ -147,7 +148,7 @@ export function bandPoints(ctx: Ctx): BandPoint[] {
   return bandEdges(ctx.mode).map(({ name, which }) => {
     const op = solveOperatingPoint(ctx.combined, systemHeadFunction(ctx.prepared, which));
     if (op.flow == null || op.head == null) return { edge: name, flow: null, head: null, efficiency: null, shaftPower: null, npshMarginRatio: null, reason: noPointReason(op) };
-    const q1 = ctx.arrangement === "parallel" ? op.flow / ctx.n : op.flow;
+    const q1 = ctx.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: ctx.n }, ctx.curve) : op.flow;
     const inCurve = q1 >= ctx.curve.flowMin && q1 <= ctx.curve.flowMax;
     const p = inCurve ? shaftPowerAt(ctx.curve, q1, rho) : null;
     const nr = inCurve ? npshrAt(ctx.curve, q1) : null;

@@ -4,6 +4,7 @@
 // recomputes with it while the engineer types.
 import {
   combinePumps,
+  flowPerPump,
   overloadCheck,
   createPumpCurve,
   EngineInputError,
@@ -254,7 +255,7 @@ export function evaluateCandidate(
   let figures: CandidateEvaluation["figures"] = null;
   let por: CandidateEvaluation["por"] = null;
   if (op.flow != null && op.head != null) {
-    const perPumpFlow = adj.arrangement === "parallel" ? op.flow / n : op.flow;
+    const perPumpFlow = adj.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: n }, curve) : op.flow; // on the pump's own curve at the combined end
     const perPumpHead = adj.arrangement === "series" ? op.head / n : op.head;
     const sl = suctionLoss(prepared, op.flow, "new").headLoss;
     const f = operatingFigures({
