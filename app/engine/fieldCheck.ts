@@ -45,8 +45,12 @@ export const TOLERANCE_GRADES: readonly ToleranceGrade[] = [
   { id: "3B", flow: [0.09, 0.09], head: [0.07, 0.07], powerAbove: 0.09, efficiencyBelow: 0.07, source: ISO },
 ];
 
-/** Throws unless `grade` has flow and head tolerances as pairs of finite fractions in [0, 1]. */
-function checkGrade(grade: ToleranceGrade, name = "grade"): void {
+/**
+ * Throws unless `grade` has flow and head tolerances as pairs of finite fractions in [0, 1].
+ * @param grade tolerance grade (fractions)
+ * @param name the parameter's name in the error (text, unitless)
+ */
+export function checkGrade(grade: ToleranceGrade, name = "grade"): void {
   if (!grade || typeof grade !== "object") throw new EngineInputError(name, "must be a tolerance grade");
   for (const key of ["flow", "head"] as const) {
     const pair = grade[key];

@@ -18,6 +18,7 @@ export * from "./affinity.ts";
 export * from "./multiple.ts";
 export * from "./figures.ts";
 export * from "./fieldCheck.ts";
+export * from "./gradeUncertainty.ts";
 export * from "./verdict.ts";
 export * from "./motor.ts";
 export * from "./lifeCycleCost.ts";

@@ -157,6 +157,10 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     hazenWilliamsHeadLoss: [[(x) => E.hazenWilliamsHeadLoss(x, 0.1, 100, 120), 0.01, [-0.01]], [(x) => E.hazenWilliamsHeadLoss(0.01, x, 100, 120), 0.1, [0, -0.1]],
       [(x) => E.hazenWilliamsHeadLoss(0.01, 0.1, x, 120), 100, [-1]], [(x) => E.hazenWilliamsHeadLoss(0.01, 0.1, 100, x), 120, [0, -120]]],
     fullyRoughFrictionFactor: [[(x) => E.fullyRoughFrictionFactor(x), 0.1, [0, -0.1]], [(x) => E.fullyRoughFrictionFactor(0.1, x), 4.5e-5, [0, -1, 0.5]]],
+    gradeWithinUncertainty: [[(x) => E.gradeWithinUncertainty(curve, { flow: [x, 0.02], head: [15, 25] }, E.TOLERANCE_GRADES[0]), 0.01, [0.03]],
+      [(x) => E.gradeWithinUncertainty(curve, { flow: [0.01, x], head: [15, 25] }, E.TOLERANCE_GRADES[0]), 0.02, [0.005]],
+      [(x) => E.gradeWithinUncertainty(curve, { flow: [0.01, 0.02], head: [x, 25] }, E.TOLERANCE_GRADES[0]), 15, [30]],
+      [(x) => E.gradeWithinUncertainty(curve, { flow: [0.01, 0.02], head: [15, x] }, E.TOLERANCE_GRADES[0]), 25, [10]]],
     flowPerPump: [[(x) => E.flowPerPump(x, { mode: "parallel", duty: 2 }), 0.01, [-0.01]], [(x) => E.flowPerPump(0.01, { mode: "parallel", duty: x }), 2, [0, 1.5]]],
     evalCubic: [[(x) => E.evalCubic(cubic, x), 1, []]],
     monotoneCubic: [[(x) => E.monotoneCubic([0, x, 2], [3, 2, 0]), 1, [0, 3]], [(x) => E.monotoneCubic([0, 1, 2], [3, x, 0]), 2, []]],
@@ -259,6 +263,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     unitDef: () => E.unitDef("flow", "m3/hr"),
     unitLabel: () => E.unitLabel("flow", "m3/hr"),
     verdictLabel: () => E.verdictLabel("Meets" as never),
+    checkGrade: () => E.checkGrade({ id: "x", flow: [0.05, 1.5], head: [0.03, 0.03] } as never),
   };
   /** Every mode/kind/enum parameter with an unknown value. */
   const enums: [string, () => unknown][] = [
@@ -283,6 +288,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     ["searchDuty methods", () => E.searchDuty([{ id: "a", curve }], { flow: 0.01, head: 10 }, { methods: ["Direct" as never] })],
     ["searchDuty trimLaw", () => E.searchDuty([{ id: "a", curve }], { flow: 0.01, head: 10 }, { trimLaw: "cubic" as never })],
     ["withinGrade grade", () => E.withinGrade(curve, 0.01, 20, { id: "x" } as never)],
+    ["gradeWithinUncertainty grade", () => E.gradeWithinUncertainty(curve, { flow: [0.01, 0.02], head: [15, 25] }, { id: "x" } as never)],
     ["gradeCross grade", () => E.gradeCross(curve, 0.01, 20, { id: "x", flow: [0.1, 2], head: [0, 0.1] } as never)],
     ["fieldCheck grades", () => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: 0.01, grades: [{ id: "x" } as never] })],
     ["motorEfficiency ieClass", () => E.motorEfficiency(7500, "IE5" as never)],

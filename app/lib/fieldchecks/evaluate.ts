@@ -7,6 +7,7 @@ import {
   efficiencyAt,
   fieldCheck,
   G0,
+  gradeWithinUncertainty,
   sampleCurve,
   scaleBySpeed,
   scaleByTrim,
@@ -14,13 +15,14 @@ import {
   TOLERANCE_GRADES,
   withinGrade,
   type FieldCheckResult,
+  type GradeWitness,
   type PumpCurve,
   type ToleranceGrade,
 } from "~/engine";
 import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import type { CheckResult, Pt } from "./result";
-import { qt } from "~/engine/quantityText";
+import { fmtPctExact, qt } from "~/engine/quantityText";
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 
@@ -60,23 +62,20 @@ function sample(c: PumpCurve, rho: number) {
 /**
  * Verdict against one grade. Flow meter: pass if the point is within the grade of the curve at the
  * measured speed; marginal if not, but some point within the reading uncertainty (head ± gauge
- * accuracy, flow ± meter accuracy) is; fail otherwise. No flow meter: unknown.
+ * accuracy, flow ± meter accuracy) is (solved over the whole box: `gradeWithinUncertainty`); fail
+ * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade.
  */
-export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number): Verdict {
-  if (e.flowSource !== "measured" || e.flow === null) return "unknown";
+export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number): { verdict: Verdict; within: GradeWitness | null } {
+  if (e.flowSource !== "measured" || e.flow === null) return { verdict: "unknown", within: null };
   const q = e.flow;
   const h = e.tdh;
-  if (h > 0 && withinGrade(curve, q, h, grade)) return "pass";
+  if (h > 0 && withinGrade(curve, q, h, grade)) return { verdict: "pass", within: null };
   if (headUncertainty > 0 || flowAccuracy > 0) {
-    const steps = [-1, -0.5, 0, 0.5, 1];
-    for (const a of steps)
-      for (const b of steps) {
-        const qq = q * (1 + a * flowAccuracy);
-        const hh = h + b * headUncertainty;
-        if (qq > 0 && hh > 0 && withinGrade(curve, qq, hh, grade)) return "marginal";
-      }
+    const box = { flow: [q * (1 - flowAccuracy), q * (1 + flowAccuracy)], head: [h - headUncertainty, h + headUncertainty] } as const;
+    const within = gradeWithinUncertainty(curve, box, grade);
+    if (within) return { verdict: "marginal", within };
   }
-  return "fail";
+  return { verdict: "fail", within: null };
 }
 
 /** Usual causes, worded as things to check — never a diagnosis. */
@@ -153,7 +152,9 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   });
   warnings.push(...engine.warnings.map((w) => w.message));
   const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
-  const verdict = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
+  const { verdict, within } = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
+  if (within)
+    warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty (flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross).`);
 
   const q = engine.flow;
   const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;
