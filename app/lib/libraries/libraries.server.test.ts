@@ -1,13 +1,14 @@
 // Pump libraries against the real MariaDB. Fixture CSVs are invented vendor exports
 // (fixtures/csv/, hand-written); expected counts are read off those files.
 import { readFileSync } from "node:fs";
-import { afterAll, describe, expect, test } from "vitest";
+import { afterAll, describe, expect, onTestFinished, test } from "vitest";
 import { eq, inArray } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { curvePoints, curveSets, libraries, libraryRevisions, pumpModels } from "@db/schema";
 import {
   analyseStored,
   createLibrary,
+  deleteLibrary,
   getUpload,
   importUpload,
   libraryCurves,
@@ -127,6 +128,8 @@ describe("visibility and the plan gate", () => {
     const libId = await createLibrary(dist, { name: `Shared ${Date.now()}`, description: "for subscribers" });
     await importFixture(dist, libId, "long-si.csv");
     await updateLibrary(dist, libId, { name: "Shared lib", description: "for subscribers", visibility: "shared" });
+    // A shared library is seen by every paid workspace of this database: gone at the end, even when a check fails.
+    onTestFinished(async () => void (await deleteLibrary(dist, libId)));
 
     const freeEng = await viewerOf(await makeMember("engineer"));
     const listed = (await listLibraries(freeEng)).find((l) => l.id === libId);
