@@ -11,6 +11,14 @@ export function RunsFieldset({ f, errors, unitSystem }: FieldsetProps) {
     <section className="panel space-y-3">
       <h2 className="font-semibold">Pipe runs</h2>
       <input type="hidden" name="runCount" value={f.runs.length} />
+      {/* Errors on the runs as a whole (their count past the limit, a run count that is not one): no field of their own. */}
+      {["runCount", "runs"].map((k) =>
+        errors[k] ? (
+          <p key={k} className="text-xs text-fail" role="alert">
+            {errors[k]}
+          </p>
+        ) : null,
+      )}
       {f.runs.map((r, i) => (
         <RunFieldset key={i} r={r} i={i} errors={errors} unitSystem={unitSystem} />
       ))}
@@ -63,15 +71,27 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
         <In label="Roughness new" unit={u("roughness")} name={`run.${i}.roughness`} def={r.roughness} placeholder={r.roughnessPlaceholder} errors={errors} />
         <In label="Roughness aged" unit={u("roughness")} name={`run.${i}.agedRoughness`} def={r.agedRoughness} placeholder={r.agedPlaceholder} errors={errors} />
       </div>
-      <details className="text-sm" open={Object.keys(r.fittings).length > 0}>
+      <details className="text-sm" open={Object.keys(r.fittings).length > 0 || EDITOR_FITTINGS.some(([fid]) => errors[`run.${i}.fit.${fid}`])}>
         <summary className="cursor-pointer font-semibold">Fittings (Crane TP-410 K values)</summary>
         <div className="mt-2 grid grid-cols-2 gap-2">
-          {EDITOR_FITTINGS.map(([fid, label]) => (
-            <label key={fid} className="flex items-center justify-between gap-2 text-xs">
-              {label}
-              <input name={`run.${i}.fit.${fid}`} type="number" min={0} max={500} step={1} defaultValue={r.fittings[fid] ?? 0} className="field w-16 py-0.5" />
-            </label>
-          ))}
+          {EDITOR_FITTINGS.map(([fid, label]) => {
+            // Text, not type="number": the browser would send a count it cannot read as blank (0 fittings); the form's reader says why instead.
+            const name = `run.${i}.fit.${fid}`;
+            const err = errors[name];
+            return (
+              <div key={fid} className="text-xs">
+                <label className="flex items-center justify-between gap-2">
+                  {label}
+                  <input id={`f-${name}`} name={name} inputMode="numeric" defaultValue={r.fittings[fid] ?? 0} className="field w-16 py-0.5" aria-invalid={err ? true : undefined} aria-describedby={err ? `f-${name}-err` : undefined} />
+                </label>
+                {err ? (
+                  <p id={`f-${name}-err`} className="text-fail" role="alert">
+                    {err}
+                  </p>
+                ) : null}
+              </div>
+            );
+          })}
         </div>
       </details>
       <label className="flex items-center gap-2 text-xs text-slate-600">

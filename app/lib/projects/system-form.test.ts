@@ -64,3 +64,38 @@ describe("readSystemForm: water outside the range its properties cover (engine f
     expect(oil.input!.temperatureC).toBe(120);
   });
 });
+
+describe("readSystemForm: counts are whole numbers typed in digits (product rule; shared/decimal.ts countField)", () => {
+  const FIT = "run.0.fit.elbow-90-standard";
+  const elbows = (o: Record<string, string>) => read(o).input?.runs[0].fittings.find((x) => x.id === "elbow-90-standard")?.count;
+  // What Number() made of them before: 16, 10, 3 (rounded), NaN (dropped), 0 (clamped), 3, Infinity, 3, 10 000…
+  it.each(["0x10", "1e1", "2.5", "2,0", "-1", "+3", "Infinity", "NaN", "abc", "1 000", "1_0", "0b11", "٣", "501", "99999999999999999999"])(
+    "a fitting count of %j is an error on that field, naming it, its range and what was typed",
+    (typed) => {
+      const r = read({ [FIT]: typed });
+      expect(r.input).toBeNull();
+      expect(r.errors[FIT]).toBe(`The number of 90° elbows must be a whole number from 0 to 500, written in digits: “${typed}” is not.`);
+      expect(Object.keys(r.errors)).toEqual([FIT]);
+    },
+  );
+  it("takes digits, trimmed as every field is (0 to 500, leading zeros); blank or no field is none", () => {
+    expect(elbows({ [FIT]: "3" })).toBe(3);
+    expect(elbows({ [FIT]: " 3 " })).toBe(3);
+    expect(elbows({ [FIT]: "03" })).toBe(3);
+    expect(elbows({ [FIT]: "500" })).toBe(500); // the schema's limit (system-input.ts MAX_FITTING_COUNT)
+    for (const none of [{ [FIT]: "" }, { [FIT]: "0" }, {}]) {
+      const r = read(none);
+      expect(r.errors).toEqual({});
+      expect(r.input!.runs[0].fittings).toEqual([]);
+    }
+  });
+  it("the editor's run count the same way: a bad one is an error, never runs read or dropped silently", () => {
+    for (const typed of ["0x1", "1e0", "1.5", "-1", "abc", "41"]) {
+      const r = read({ runCount: typed });
+      expect(r.input, typed).toBeNull();
+      expect(r.errors.runCount, typed).toBe(`The number of pipe runs must be a whole number from 0 to 40, written in digits: “${typed}” is not.`);
+    }
+    expect(read({ runCount: "1" }).input!.runs).toHaveLength(1);
+    expect(read({ runCount: "" }).input!.runs).toHaveLength(0); // blank: no runs, as before
+  });
+});

@@ -3,10 +3,10 @@
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
 import { qt } from "~/engine/quantityText";
-import { decimalField } from "../shared/decimal";
+import { countField, decimalField } from "../shared/decimal";
 import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { MAX_MAGNITUDE, newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -72,7 +72,9 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
           vaporPressure: si("pressure", "vaporPressure", "the vapour pressure") ?? 0,
         }
       : { kind: "water" as const };
-  const runCount = Math.min(40, Math.max(0, Number(f.get("runCount") ?? 0) | 0));
+  // Counts are read as digits only (shared/decimal.ts countField): Number() took 0x10 as 16 runs or fittings, 2.5 as 3,
+  // and junk as none at all. The run count is the editor's own hidden field: a bad one drops no run silently.
+  const runCount = countField(f.get("runCount"), "runCount", "the number of pipe runs", errors, MAX_RUNS) ?? 0;
   const runs: PipeRunInput[] = [];
   for (let i = 0; i < runCount; i++) {
     const p = `run.${i}.`;
@@ -97,7 +99,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
     }
     const roughness = si("roughness", `${p}roughness`, "the roughness", true) ?? m?.roughnessNew ?? 0;
     const agedRoughness = si("roughness", `${p}agedRoughness`, "the aged roughness", true) ?? m?.roughnessAged ?? roughness;
-    const fittings = EDITOR_FITTINGS.map(([id]) => ({ id, count: Math.max(0, Math.round(Number(f.get(`${p}fit.${id}`) || 0))) })).filter((x) => x.count > 0);
+    const fittings = EDITOR_FITTINGS.map(([id, label]) => ({ id, count: countField(f.get(`${p}fit.${id}`), `${p}fit.${id}`, `the number of ${label.toLowerCase()}`, errors, MAX_FITTING_COUNT) ?? 0 })).filter((x) => x.count > 0);
     runs.push({
       side,
       name: (f.get(`${p}name`) ?? "").toString().slice(0, 80) || `${side === "suction" ? "Suction" : "Discharge"} run ${i + 1}`,

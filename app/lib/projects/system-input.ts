@@ -15,9 +15,13 @@ const num = (label: string) =>
 const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
 const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be greater than zero.`));
 
+/** Most fittings of one kind in one run, and most pipe runs in a system (the editor's fields read up to these). */
+export const MAX_FITTING_COUNT = 500;
+export const MAX_RUNS = 40;
+
 export const FittingUseSchema = v.object({
   id: v.pipe(v.string(), v.maxLength(60)),
-  count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(500)),
+  count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(MAX_FITTING_COUNT)),
 });
 
 export const PipeRunSchema = v.object({
@@ -63,7 +67,7 @@ export const SystemInputSchema = v.object({
   suctionSurfacePressure: pos("Suction surface pressure"),
   /** Suction liquid surface above the pump centreline, m (negative: suction lift). */
   suctionStaticHead: num("Suction static head"),
-  runs: v.pipe(v.array(PipeRunSchema), v.maxLength(40, "At most 40 pipe runs.")),
+  runs: v.pipe(v.array(PipeRunSchema), v.maxLength(MAX_RUNS, `At most ${MAX_RUNS} pipe runs.`)),
   duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
   /** Largest flow drawn, m³/s (0: from the duty). */
   flowMax: nonNeg("Largest flow"),

@@ -1,7 +1,7 @@
 // The forms' number reader, rule by rule. Every expected value is the product's own rule (decimal.ts,
 // "Product rules"), not a measurement; each refusal sits beside the nearest text that is accepted.
 import { describe, expect, it } from "vitest";
-import { decimalField, decimalMessage, decimalOrNaN, readDecimal } from "./decimal";
+import { countField, decimalField, decimalMessage, decimalOrNaN, readDecimal } from "./decimal";
 import { parseNumber } from "../import/numbers";
 
 const value = (s: unknown) => {
@@ -111,6 +111,20 @@ describe("messages", () => {
     expect(errors.a).toBe("Enter the flow.");
     expect(decimalField(" 7,25 ", "b", "the head", errors)).toBe(7.25);
     expect(errors.b).toBeUndefined();
+  });
+  it("countField: digits 0..max only; blank or missing is the blank value; anything else an error naming the field, kept if already set", () => {
+    const errors: Record<string, string> = {};
+    expect(countField(" 12 ", "n", "the count", errors, 20)).toBe(12);
+    expect(countField("20", "n", "the count", errors, 20)).toBe(20);
+    expect(countField("", "n", "the count", errors, 20, 7)).toBe(7);
+    expect(countField(null, "n", "the count", errors, 20)).toBe(0);
+    expect(errors).toEqual({});
+    expect(countField("21", "n", "the count", errors, 20)).toBeNull(); // past max
+    expect(errors.n).toBe("The count must be a whole number from 0 to 20, written in digits: “21” is not.");
+    expect(countField("0x10", "n", "the count", errors, 20)).toBeNull();
+    expect(errors.n).toMatch(/“21”/); // the first message stays
+    expect(countField(new Blob(["3"]), "f", "the count", errors, 20)).toBeNull(); // a file is no count
+    expect(errors.f).toBe("The count must be a whole number from 0 to 20, written in digits.");
   });
   it("decimalOrNaN (filters: junk means no filter): 1,500 is NaN, never 1.5", () => {
     expect(decimalOrNaN("1,500")).toBeNaN();
