@@ -5,6 +5,7 @@ import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
 import { DocTable } from "~/components/DocTable";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { MODEL_PAGE_ROWS } from "~/lib/libraries";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
 // Field tables and limits are generated from the request schemas (app/lib/calc-api/docs.ts).
@@ -14,6 +15,8 @@ export function loader() {
     rate: ANON_RATE_LIMIT,
     endpoints: CALC_ENDPOINT_DOCS.map((e) => ({ ...e, fields: describeRequest(REQUEST_SCHEMAS[e.id]) })),
     correlations: calculatorCorrelations(),
+    /** Models a page of GET /api/v1/libraries/:id/models (the route answers with the same constant). */
+    modelPageRows: MODEL_PAGE_ROWS,
   };
 }
 
@@ -37,7 +40,7 @@ Content-Type: application/problem+json
 
 const DIMENSIONLESS = "dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness";
 
-const ACCOUNT_ENDPOINTS: [string, string, string][] = [
+const accountEndpoints = (modelPageRows: number): [string, string, string][] => [
   ["GET /api/v1/me", "workspace.read", "Who the token speaks for: user id, workspace, role, token scope."],
   ["GET /api/v1/libraries", "library.read", "Every pump library you may see; locked shared libraries are listed without curves."],
   [
@@ -45,6 +48,12 @@ const ACCOUNT_ENDPOINTS: [string, string, string][] = [
     "library.read",
     "The curve sets of one library (latest revision unless given), SI: flow m³/s, head m, efficiency 0–1, power W, NPSHr m, impeller diameter m, speed rpm. 403 when a shared library needs the Network plan.",
   ],
+  [
+    "GET /api/v1/libraries/:id/models[?page=N]",
+    "library.read",
+    `The models of one library's current revision with their curve sets (no points; flowMax m³/s, headMax m, impeller diameter m, speed rpm), in name order, ${modelPageRows} a page: { units, paging: { page, pages, pageSize, total }, links: { self, first, prev, next, last }, models }. Pages count from 1; a page past the last answers the last, and a page that is not a whole number from 1 (0, -1, 1.5, 1e9, abc) the first — paging.page says which page was answered; follow links.next (null on the last page) to read every model once. 403 when a shared library needs the Network plan.`,
+  ],
+  ["GET /api/v1/models/:id", "library.read", "One model (name, type, size, notes), its library and revision, and its curve sets with their points, SI as for …/curves."],
 ];
 
 function Code({ children }: { children: string }) {
@@ -52,7 +61,7 @@ function Code({ children }: { children: string }) {
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {
-  const { limits, rate, endpoints, correlations } = loaderData;
+  const { limits, rate, endpoints, correlations, modelPageRows } = loaderData;
   return (
     <div className="max-w-4xl space-y-8">
       <header className="space-y-2">
@@ -192,7 +201,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           session; without either, 401. A token acts for its workspace with its owner's role; a role that may not do
           something gets 403.
         </p>
-        <DocTable head={["request", "needs", "answer"]} cells={["font-mono", "font-mono text-xs"]} rows={ACCOUNT_ENDPOINTS} />
+        <DocTable head={["request", "needs", "answer"]} cells={["font-mono", "font-mono text-xs"]} rows={accountEndpoints(modelPageRows)} />
         <Code>{`curl -sS https://<your Dutymark address>/api/v1/libraries \\
   -H 'Authorization: Bearer <token>'`}</Code>
       </section>

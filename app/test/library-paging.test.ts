@@ -2,7 +2,8 @@
 // (MODEL_PAGE_ROWS), odd `page` values land on a real page, a `model` the list does not hold (another
 // library's, a deleted one, junk, one the filters hide) shows the first listed with a notice instead of
 // an error, the model shown carries exactly its own curves, and a new revision is listed at once (the
-// kept lists are per immutable revision). Real MariaDB, invented curves (app/test/big-library.ts).
+// kept lists are per immutable revision). The API's model list (GET /api/v1/libraries/:id/models) pages the
+// same way, with links to the other pages. Real MariaDB, invented curves (app/test/big-library.ts).
 // Expected values: our product rules (MODEL_PAGE_ROWS, name order) and the stored revision read afresh.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
@@ -12,6 +13,8 @@ import { pageOf } from "~/lib/shared/paging";
 import { call, makeMember, type TestMember } from "./harness";
 import { bigLibraryCsv } from "./big-library";
 import * as libraryPage from "~/routes/libraries.$id";
+import * as apiModels from "~/routes/api.v1.libraries.$id.models";
+import * as apiDocs from "~/routes/api-docs";
 
 const MODELS = 120; // three pages: 50, 50, 20
 let engineer: TestMember;
@@ -143,5 +146,50 @@ describe("a library's models a page at a time", () => {
     const after = await listModels(dv, otherId);
     expect(after.map((m) => m.name)).toEqual(["Bench 9200", "Bench 9201", "Bench 9202"]);
     expect((await listModels(dv, otherId)).map((m) => m.name)).toEqual(["Bench 9200", "Bench 9201", "Bench 9202"]);
+  });
+});
+
+describe("GET /api/v1/libraries/:id/models a page at a time (the library page's convention: pageOf, MODEL_PAGE_ROWS)", () => {
+  type ApiPage = {
+    paging: { page: number; pages: number; pageSize: number; total: number };
+    links: { self: string; first: string; prev: string | null; next: string | null; last: string };
+    models: { id: number; name: string; curves: unknown[] }[];
+  };
+  const path = () => `/api/v1/libraries/${bigId}/models`;
+  const api = async (query = "") => {
+    const r = await call(apiModels.loader as never, { path: `${path()}${query}`, cookie: engineer.cookie, params: { id: String(bigId) } });
+    expect(r.status, query).toBe(200);
+    return r.body as ApiPage;
+  };
+
+  test(`${MODELS} models in pages of ${MODEL_PAGE_ROWS}: following links.next from the first page gives every model once, in the service's order`, async () => {
+    const pages: ApiPage[] = [await api()];
+    while (pages.at(-1)!.links.next && pages.length < 10) pages.push(await api(pages.at(-1)!.links.next!.slice(path().length)));
+    expect(pages.map((p) => p.models.length)).toEqual([MODEL_PAGE_ROWS, MODEL_PAGE_ROWS, MODELS - 2 * MODEL_PAGE_ROWS]);
+    expect(pages.map((p) => p.paging)).toEqual([1, 2, 3].map((page) => ({ page, pages: 3, pageSize: MODEL_PAGE_ROWS, total: MODELS })));
+    const ids = pages.flatMap((p) => p.models.map((m) => m.id));
+    expect(new Set(ids).size).toBe(MODELS);
+    expect(ids).toEqual((await listModels(dv, bigId)).map((m) => m.id)); // the whole list, in order, once
+    for (const p of pages) for (const m of p.models) expect(m.curves).toHaveLength(10); // 2 speeds × 5 impellers (big-library.ts)
+    expect(pages[0].links).toEqual({ self: `${path()}?page=1`, first: `${path()}?page=1`, prev: null, next: `${path()}?page=2`, last: `${path()}?page=3` });
+    expect(pages[1].links).toMatchObject({ prev: `${path()}?page=1`, next: `${path()}?page=3` });
+    expect(pages[2].links).toMatchObject({ self: `${path()}?page=3`, prev: `${path()}?page=2`, next: null });
+  });
+
+  test("odd page values answer a page as the library page does, never an error: not a whole number from 1 is the first, past the end the last", async () => {
+    const firstIds = (await api("?page=1")).models.map((m) => m.id);
+    for (const q of ["0", "-1", "1e9", "abc", "1.5", "", "%00", "2x", "0x2"]) {
+      const p = await api(`?page=${q}`);
+      expect(p.paging.page, q).toBe(1);
+      expect(p.models.map((m) => m.id), q).toEqual(firstIds);
+    }
+    for (const q of ["4", "1000000000", "9".repeat(15)]) expect((await api(`?page=${q}`)).paging.page, q).toBe(3);
+    expect((await api("?page=2")).paging.page).toBe(2);
+    // The rest of the query string stays in the links.
+    expect((await api("?x=1&page=2")).links.next).toBe(`${path()}?x=1&page=3`);
+  });
+
+  test("the /api page states the page size the route answers with", async () => {
+    expect(apiDocs.loader().modelPageRows).toBe((await api()).paging.pageSize);
   });
 });

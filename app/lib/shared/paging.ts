@@ -21,3 +21,18 @@ export function pageHref(search: string, page: number): string {
   q.set("page", String(page));
   return `?${q}`;
 }
+
+/** An API list's links to its pages: path and query string (the rest of the query kept, `page` set); prev and next null at the ends. */
+export type PageLinks = { self: string; first: string; prev: string | null; next: string | null; last: string };
+
+/** The links of `paging` for a request to `url` (the API's list routes answer them beside `paging`). */
+export function pageLinks(url: URL, paging: Paging): PageLinks {
+  const at = (page: number) => `${url.pathname}${pageHref(url.search, page)}`;
+  return {
+    self: at(paging.page),
+    first: at(1),
+    prev: paging.page > 1 ? at(paging.page - 1) : null,
+    next: paging.page < paging.pages ? at(paging.page + 1) : null,
+    last: at(paging.pages),
+  };
+}
