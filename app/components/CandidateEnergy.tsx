@@ -1,9 +1,11 @@
 // Each candidate over the system's duty cycle (operating point, speed, efficiencies, electrical input
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
+import { Fragment } from "react";
 import { Form } from "react-router";
 import type { CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
+import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
 
 type Cand = { id: number; label: string; energy?: Energy | null };
 
@@ -100,27 +102,38 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
             </thead>
             <tbody>
               {e.cycle.steps.map((s, i) => (
-                <tr key={i} className="border-t border-slate-100">
-                  <td className="pr-2">{fmtNum(s.flowFraction * 100, 0)} %</td>
-                  <td className="pr-2">{fmtFlow(unitSystem, s.flow)}</td>
-                  <td className="pr-2">{fmtHead(unitSystem, s.head)}</td>
-                  {s.status === "ok" ? (
-                    <>
-                      <td className="pr-2">{fmtPct(s.speedRatio, 0)}</td>
-                      <td className="pr-2">{fmtPct(s.efficiency)}</td>
-                      <td className="pr-2">{fmtPower(unitSystem, s.shaftPower)}</td>
-                      <td className="pr-2">{fmtPct(s.motorEfficiency)}</td>
-                      <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
-                      <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
-                    </>
-                  ) : (
-                    <td colSpan={6} className="pr-2 text-duty-ink">
-                      ▲ {s.message}
-                    </td>
-                  )}
-                  <td className="pr-2">{fmtNum(s.hours, 0)}</td>
-                  <td className="pr-2">{s.energyKWh == null ? "—" : `${fmtNum(s.energyKWh, 0)} kWh`}</td>
-                </tr>
+                <Fragment key={i}>
+                  <tr className="border-t border-slate-100">
+                    <td className="pr-2">{fmtNum(s.flowFraction * 100, 0)} %</td>
+                    <td className="pr-2">{fmtFlow(unitSystem, s.flow)}</td>
+                    <td className="pr-2">{fmtHead(unitSystem, s.head)}</td>
+                    {s.status === "ok" ? (
+                      <>
+                        {/* The speed as the engine states it: "full speed, throttled", "84.2 % speed", "held at the lowest speed 30 %, throttled". */}
+                        <td className="pr-2">{s.message || fmtPct(s.speedRatio, 0)}</td>
+                        <td className="pr-2">{fmtPct(s.efficiency)}</td>
+                        <td className="pr-2">{fmtPower(unitSystem, s.shaftPower)}</td>
+                        <td className="pr-2">{fmtPct(s.motorEfficiency)}</td>
+                        <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
+                        <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
+                      </>
+                    ) : (
+                      <td colSpan={6} className="pr-2 text-duty-ink" data-testid={`step-${c.id}-${i}`}>
+                        ▲ {stepVerdict(s)}: {s.message}
+                      </td>
+                    )}
+                    <td className="pr-2">{fmtNum(s.hours, 0)}</td>
+                    <td className="pr-2">{s.energyKWh == null ? "—" : `${fmtNum(s.energyKWh, 0)} kWh`}</td>
+                  </tr>
+                  {stepWarnings(e.cycle!, i).map((w) => (
+                    <tr key={w}>
+                      <td />
+                      <td colSpan={10} className="pr-2 text-duty-ink">
+                        ▲ {w}
+                      </td>
+                    </tr>
+                  ))}
+                </Fragment>
               ))}
               <tr className="border-t border-slate-300 font-semibold">
                 <td colSpan={9} className="pr-2">
@@ -134,6 +147,13 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
             </tbody>
           </table>
         </div>
+      ) : null}
+      {e?.cycle && cycleWarnings(e.cycle).length > 0 ? (
+        <ul className="text-xs text-duty-ink">
+          {cycleWarnings(e.cycle).map((w) => (
+            <li key={w}>▲ {w}</li>
+          ))}
+        </ul>
       ) : null}
       {e?.lcc ? (
         <p className="text-xs" data-testid={`lcc-${c.id}`}>

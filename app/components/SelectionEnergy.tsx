@@ -2,6 +2,7 @@
 import type { CandidateEnergy } from "~/lib/projects/energy";
 import { CandidateCycle, cycleEnergyText, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
+import { cycleNoteLines } from "~/components/cycle-notes";
 import type { UnitChoice } from "~/lib/shared/units";
 
 export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitChoice; currency: string }) {
@@ -21,6 +22,14 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; 
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
         {e.lcc ? ` (${e.lcc.source})` : ""}.
       </p>
+      {/* A step not met or not computed, and each warning, printed at its step with the engine's message. */}
+      {e.cycle && cycleNoteLines(e.cycle).length > 0 ? (
+        <ul className="hidden list-disc pl-5 text-xs text-duty-ink print:block" data-testid="cycle-notes-print">
+          {cycleNoteLines(e.cycle).map((l) => (
+            <li key={l}>{l}</li>
+          ))}
+        </ul>
+      ) : null}
       <div className="no-print space-y-2">
         <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
         {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: `${c.label}${incompleteMark(e.cycle)}`, cumulative: e.lcc.cumulative }]} /> : null}

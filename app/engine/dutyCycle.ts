@@ -39,7 +39,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtPct, qt } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, qt } from "./quantityText.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -191,7 +191,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (hSet !== null && !(hSet > 0)) throw new EngineInputError("systemHead", "must be positive at the design flow for a pressure set point");
   const warnings: EngineWarning[] = [];
 
-  const steps = input.profile.map((s): StepResult => {
+  const steps = input.profile.map((s, i): StepResult => {
     const q = qDesign * s.flowFraction;
     const base = { flowFraction: s.flowFraction, hours: s.hours, flow: q };
     const none = (status: StepStatus, message: string, head: number | null = null, speedRatio: number | null = null): StepResult => ({
@@ -206,7 +206,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
       if (hp === null) return none("beyond-curve", `${qt("flow", q)} is outside the pump's curve (${qt("flow", curve.flowMin)}–${qt("flow", curve.flowMax)}) at fixed speed`);
-      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${qt("head", hp)}, below the system's ${qt("head", hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${qt("head", hp)}, ${fmtPctExact(1 - hp / hSys)} below the system's ${qt("head", hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       head = hp;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
@@ -219,7 +219,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         const hSys = requireFinite("systemHead", input.systemHead(q));
         if (head < hSys * (1 - 1e-9)) {
           const fix = mode === "proportional-pressure" ? "raise the set point, or use constant-pressure or system-curve control" : "raise the set point or use system-curve control";
-          return none("control-below-system", `the control curve gives ${qt("head", head)} at ${qt("flow", q)} but the system needs ${qt("head", hSys)} there: the flow cannot reach this step on this control curve — ${fix}`, head);
+          // The shortfall as a percentage (fmtPctExact): near the crossing both heads may read the same at their rounding.
+          return none("control-below-system", `the control curve gives ${qt("head", head)} at ${qt("flow", q)} but the system needs ${qt("head", hSys)} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
@@ -247,7 +248,9 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     }
     if (eta === null) eta = (rho * G0 * q * head) / shaft;
     const x = shaft / rating;
-    if (x < MOTOR_PART_LOAD[0][0]) warnings.push({ code: "motor-very-light-load", message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPct(x)} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
+    // `parameter` names the step (profile[i]), so a page can show the warning at it.
+    // (1e-9: a load computed a rounding error below 10 %, as 75 W / 750 W at half speed, is 10 %.)
+    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
