@@ -146,6 +146,7 @@ describe("duty-cycle edges", () => {
     expect(r.complete).toBe(false);
     expect(r.annualEnergyKWh).toBeCloseTo(750, 6); // only the 100 % step (hand calculation above)
     expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
+    expect(r.steps[1].message).toMatch(/gives ⟦head\|15\.5⟧, 61\.7 % below the system's ⟦head\|40\.5⟧/); // 1 − 15.5/40.5 = 61.7 % (hand calculation)
     // With the VFD the same step needs more than full speed.
     const v = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97, profile: [{ flowFraction: 1.5, hours: 100 }] });
     expect(v.steps[0].status).toBe("beyond-curve");
