@@ -13,7 +13,7 @@ export function stepVerdict(s: Pick<StepResult, "status">): string {
 /** The step as named in a note: its flow as a share of the duty flow and its hours, e.g. "45 % flow, 2000 h". */
 export const stepName = (s: Pick<StepResult, "flowFraction" | "hours">): string => `${fmtNum(s.flowFraction * 100, 0)} % flow, ${fmtNum(s.hours, 0)} h`;
 
-type Cycle = Pick<DutyCycleResult, "steps"> & { warnings?: DutyCycleResult["warnings"] };
+type Cycle = { steps: readonly Pick<StepResult, "flowFraction" | "hours" | "status" | "message">[]; warnings?: DutyCycleResult["warnings"] };
 
 /** The warnings about step `i` (motor below 10 % load, …): their messages. */
 export function stepWarnings(cycle: Cycle, i: number): string[] {

@@ -83,7 +83,7 @@ describe("readSystemForm: counts are whole numbers typed in digits (product rule
     expect(elbows({ [FIT]: " 3 " })).toBe(3);
     expect(elbows({ [FIT]: "03" })).toBe(3);
     expect(elbows({ [FIT]: "500" })).toBe(500); // the schema's limit (system-input.ts MAX_FITTING_COUNT)
-    for (const none of [{ [FIT]: "" }, { [FIT]: "0" }, {}]) {
+    for (const none of [{ [FIT]: "" }, { [FIT]: "0" }, {}] as Record<string, string>[]) {
       const r = read(none);
       expect(r.errors).toEqual({});
       expect(r.input!.runs[0].fittings).toEqual([]);
