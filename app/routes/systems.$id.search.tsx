@@ -62,6 +62,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     message: res.message,
     stats: res.stats,
     hidden: res.hidden,
+    leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
     locked: res.locked.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, visibility: l.visibility })),
     results: res.results.map((r) => ({
@@ -175,6 +176,12 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
+        </p>
+      ) : null}
+      {d.stats && d.leftOut.count ? (
+        <p className="text-xs caution" data-testid="search-left-out">
+          {d.leftOut.count} curve set{d.leftOut.count === 1 ? " was" : "s were"} left out of the search: the engine refuses their points ({d.leftOut.examples.join("; ")}
+          {d.leftOut.count > d.leftOut.examples.length ? "; …" : ""}). Import the library's file again to see each problem named.
         </p>
       ) : null}
       <section className="panel overflow-x-auto">

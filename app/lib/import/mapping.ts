@@ -120,13 +120,22 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
     };
     if (g.qualifier) col.block = { ...g.qualifier };
     if (g.field === "efficiency" && !g.unitFromHeader) {
-      let max = -Infinity;
+      // Percent when values above 1.5 are at least as many as values in (0, 1] (zeros at shutoff say
+      // nothing): most values decide, not the largest, so one typo (1.6 among fractions) does not read
+      // the whole column in percent. Each curve set's best efficiency is then checked after conversion
+      // (point-rules.ts): a curve written in the other unit is flagged, never imported 100× off.
+      let percent = 0;
+      let fraction = 0;
+      let read = false;
       for (const r of sample) {
         const x = parseNumber(r.cells[index] ?? "", decimalComma);
-        if (!Number.isNaN(x)) max = Math.max(max, x);
+        if (Number.isNaN(x)) continue;
+        read = true;
+        if (x > 1.5) percent++;
+        else if (x > 0 && x <= 1) fraction++;
       }
-      if (max > -Infinity) {
-        col.unit = max > 1.5 ? "%" : "fraction";
+      if (read) {
+        col.unit = percent > 0 && percent >= fraction ? "%" : "fraction";
         col.unitSource = "data";
       }
     }
