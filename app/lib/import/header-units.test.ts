@@ -60,6 +60,13 @@ describe("header units in whole files", () => {
     expect(p.map((x) => [x.code, x.severity, x.column])).toEqual([["header-changed", "warning", "Head (kPa)"], ["mapping", "error", "Head (kPa)"]]); // source: importer rule (the choice was for “Head m”)
   });
 
+  it("of two columns for one field, the one whose unit can be read is mapped and the refused one left unmapped", () => {
+    const a = analyseCsv("Model,Speed (Hz),Speed rpm,Flow m3/h,Head (kPa),Head m\nA,50,2900,0,200,20\nA,50,2900,10,190,19\nA,50,2900,20,170,17\n");
+    expect(a.mapping.columns.map((c) => c.field)).toEqual(["model", "ignore", "speed", "flow", "ignore", "head"]); // source: importer rule (readable unit first)
+    expect(a.result.problems).toEqual([]); // source: hand-written clean file once mapped so
+    expect(a.result.curveSets.map((c) => [c.key, c.ok])).toEqual([["A|2900|", true]]); // source: hand-written file (2900 rpm)
+  });
+
   it("wide blocks by frequency (Q@50Hz, H@50Hz) are refused, not read as impellers of 50 and 60 mm", () => {
     const a = analyseCsv("Model,Q@50Hz,H@50Hz,Q@60Hz,H@60Hz\nA,0,20,0,29\nA,10,19,12,27\nA,20,17,24,24\n");
     expect(a.mapping.columns.some((c) => c.block)).toBe(false); // source: a frequency is neither a speed in rpm nor a diameter

@@ -157,7 +157,9 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
       seen.set(k, c);
       continue;
     }
-    if (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header)) {
+    // A column whose header unit can be read wins over one whose unit word is refused ("Head (m)" over "Head (kPa)").
+    const readable = headerUnitRefusal(prev.header, prev.field) !== null && headerUnitRefusal(c.header, c.field) === null;
+    if (readable || (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header))) {
       prev.field = "ignore";
       prev.unit = null;
       prev.unitSource = undefined;
