@@ -1,12 +1,27 @@
 import { reactRouter } from "@react-router/dev/vite";
-import { defineConfig } from "vitest/config";
+import { defineConfig, type Plugin } from "vitest/config";
+import { CLIENT_IP_HEADER } from "./app/lib/shared/client-address.ts";
 
 // One config for the app and for vitest: under vitest the React Router plugin is left out
 // (it expects a full app build), and tsconfig paths are resolved by Vite itself.
 const underVitest = Boolean(process.env.VITEST);
 
+/**
+ * The dev server (npm run dev) hands the app the client address as app/serve.mjs does: the socket's,
+ * always overwriting what a client sent under that name (sign-in throttling and the dev mailbox read it).
+ */
+const clientAddress = (): Plugin => ({
+  name: "dutymark-client-address",
+  configureServer(server) {
+    server.middlewares.use((req, _res, next) => {
+      req.headers[CLIENT_IP_HEADER] = req.socket.remoteAddress ?? "";
+      next();
+    });
+  },
+});
+
 export default defineConfig({
-  plugins: underVitest ? [] : [reactRouter()],
+  plugins: underVitest ? [] : [clientAddress(), reactRouter()],
   resolve: { tsconfigPaths: true },
   server: { host: "127.0.0.1" },
   test: {

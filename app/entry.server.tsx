@@ -2,11 +2,12 @@
 // and hands it over in a request header it overwrites; <ServerRouter nonce> gives it to <Scripts>,
 // <ScrollRestoration> and <Links>, and React's own inline scripts get it from renderToPipeableStream.
 import { Writable } from "node:stream";
-import type { EntryContext } from "react-router";
-import { ServerRouter } from "react-router";
+import type { EntryContext, HandleErrorFunction } from "react-router";
+import { isRouteErrorResponse, ServerRouter } from "react-router";
 import { renderToPipeableStream } from "react-dom/server";
 import { assertSettings } from "~/lib/shared/env.server";
 import { encodeDocument } from "~/lib/shared/encode-document.server";
+import { allowedMethods, patternOf } from "~/lib/shared/methods";
 
 /**
  * Every setting, validated once when the server build is loaded: a missing or bad value stops the
@@ -16,12 +17,29 @@ export const startupSettings = assertSettings();
 
 export const streamTimeout = 5_000;
 
+/**
+ * React Router's own error log (its default handler, 7.18), less the 405s it makes itself: a method a
+ * route does not take (PROPFIND on an API route, a POST to a page without an action that got past the
+ * root middleware's table) is the client's mistake, and a stack for each let anyone fill the log at will.
+ */
+export const handleError: HandleErrorFunction = (error, { request }) => {
+  if (request.signal.aborted) return;
+  if (isRouteErrorResponse(error) && error.status === 405) return;
+  const inner = isRouteErrorResponse(error) ? (error as { error?: unknown }).error : undefined;
+  console.error(inner ?? error);
+};
+
 /** Set by app/serve.mjs (a client's own value is overwritten there). */
 export const CSP_NONCE_HEADER = "x-dutymark-csp-nonce";
 
 export default function handleRequest(request: Request, responseStatusCode: number, responseHeaders: Headers, routerContext: EntryContext) {
   if (request.method.toUpperCase() === "HEAD") {
     return new Response(null, { status: responseStatusCode, headers: responseHeaders });
+  }
+  // React Router's own 405 page (a method it refuses before any middleware: OPTIONS on a page, PROPFIND
+  // and the like) carries no Allow: the route's methods from the one table (lib/shared/methods.ts).
+  if (responseStatusCode === 405 && !responseHeaders.has("Allow")) {
+    responseHeaders.set("Allow", allowedMethods(patternOf(routerContext.manifest.routes, new URL(request.url).pathname)).join(", "));
   }
   const raw = request.headers.get(CSP_NONCE_HEADER) ?? "";
   const nonce = /^[A-Za-z0-9+/=_-]{16,64}$/.test(raw) ? raw : undefined;

@@ -15,7 +15,8 @@ import "./app.css";
 import { csrfRefusal } from "~/lib/auth/csrf.server";
 import { getAuth } from "~/lib/auth/session.server";
 import { authWithWorkspaces } from "~/lib/auth/guards.server";
-import { problem } from "~/lib/shared/problem.server";
+import { methodNotAllowed, problem } from "~/lib/shared/problem.server";
+import { methodVerdict } from "~/lib/shared/methods";
 import { requestScope } from "~/lib/shared/request-scope.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
 import { databaseTrouble } from "~/lib/shared/health.server";
@@ -26,10 +27,18 @@ import { bodyLimitFor } from "~/lib/shared/body-limits.mjs";
 export const middleware: Route.MiddlewareFunction[] = [
   // One memo for the whole request (session, workspace list): see lib/shared/request-scope.server.ts.
   ({ request }, next) => requestScope(request, next),
-  async ({ request }, next) => {
+  async ({ request, pattern }, next) => {
     ensureOutboxFlusher(); // idempotent: retries unsent mail in the background of each app process
     const url = new URL(request.url);
     const isApi = url.pathname.startsWith("/api/");
+    // Outside /api/ the method is checked here, before any action can run (React Router runs an
+    // action on PUT, PATCH and DELETE as on POST): the table is lib/shared/methods.ts. API routes
+    // answer wrong methods themselves (problem.server.ts methodNotAllowed).
+    if (!isApi) {
+      const { verdict, allow } = methodVerdict(request.method, pattern);
+      if (verdict === "options") return new Response(null, { status: 204, headers: { Allow: allow.join(", ") } });
+      if (verdict === "refuse") return methodNotAllowed(allow, `${request.method.toUpperCase()} is not taken here: use ${allow.join(" or ")}.`);
+    }
     const refusal = csrfRefusal(request);
     if (refusal) {
       if (isApi) throw problem({ title: "Forbidden", status: 403, detail: refusal });

@@ -18,7 +18,9 @@ export type RouteWords = {
 /** Title and sentence for an error thrown in a route, in the route's words. */
 export function routeErrorText(error: unknown, words: RouteWords, dev = false): { title: string; detail: string; stack?: string } {
   if (isRouteErrorResponse(error)) {
-    const said = typeof error.data === "string" && error.data.trim() ? error.data : null;
+    // A refusal says why in its data: a string, or `{ detail }` (with members for the API, e.g. `errors`).
+    const text = typeof error.data === "string" ? error.data : typeof error.data?.detail === "string" ? (error.data.detail as string) : "";
+    const said = text.trim() ? text : null;
     switch (error.status) {
       case 400:
         return { title: "That request could not be read", detail: said ?? `Something in the address or the form for ${words.what} is not valid.` };
@@ -31,6 +33,8 @@ export function routeErrorText(error: unknown, words: RouteWords, dev = false): 
           title: words.notFoundTitle ?? "Not found",
           detail: words.notFound ?? `We could not find ${words.what}. It may have been deleted, the link may be wrong, or it belongs to a workspace you are not in.`,
         };
+      case 409:
+        return { title: "Not possible as things stand", detail: said ?? `Something about ${words.what} has to be put right first.` };
       case 413:
         return { title: "Too large", detail: said ?? "What you sent is larger than this page accepts." };
       case 503:

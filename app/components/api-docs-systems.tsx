@@ -38,7 +38,10 @@ export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => Re
       <p className="text-sm text-slate-700">
         Token or session as for the account API; needs <code>project.read</code>. A system of another workspace, or
         an id that does not exist, answers 404; an id that is not a number, 400; errors are{" "}
-        <code>application/problem+json</code>. All numbers are SI.
+        <code>application/problem+json</code>. A system whose stored inputs no longer pass the checks (saved under an
+        older version of them, or changed outside the editor) answers 409 on both reads, with <code>detail</code> naming
+        where and <code>errors</code> (<code>{"{ field, message }"}</code>) saying what: nothing is computed from it, and no
+        default values stand in, until the inputs are fixed and saved on the system page. All numbers are SI.
       </p>
       <h3 className="font-semibold">GET /api/v1/systems/:id</h3>
       <p className="text-sm text-slate-700">The stored system evaluated with its candidates: the same view as the live preview.</p>

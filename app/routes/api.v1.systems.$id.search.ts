@@ -24,7 +24,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       { methods: methods.length ? (methods as (typeof METHODS)[number][]) : undefined });
     return Response.json(renderDeep(view, c.units));
   } catch (e) {
-    return asProblem(e);
+    return asProblem(e, c.units); // 404; 409 when the stored inputs do not pass the schema
   }
 }
 

@@ -7,10 +7,10 @@ import { answerById } from "~/lib/shared/api-errors.server";
 import { systemReadView } from "~/lib/projects";
 
 // GET /api/v1/systems/:id — the stored system evaluated with its candidates: { input, evaluation, candidates }
-// (the same view as POST …/preview). SI units throughout.
+// (the same view as POST …/preview). SI units throughout. Stored inputs that do not pass the schema: 409 problem+json.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await requireApi(request, "project.read");
-  return answerById(params.id, "System", async (id) => renderDeep(await systemReadView(viewerOfApi(c), id), c.units));
+  return answerById(params.id, "System", async (id) => renderDeep(await systemReadView(viewerOfApi(c), id), c.units), c.units);
 }
 
 export function action() {

@@ -1,9 +1,10 @@
 // /dev/mailbox — the messages the SMTP stand-in caught (fixtures/smtp/server.ts), newest first,
-// plus the latest outbox rows. Development and test mode only: a 404 in production otherwise.
+// plus the latest outbox rows. Development and test mode only, and only to a request from this machine
+// itself (loopback, no proxy): a 404 for anyone else (mailboxOpenTo in lib/mail/mailbox.server.ts).
 import { Form, useNavigation } from "react-router";
 import type { Route } from "./+types/dev.mailbox";
 import { readFormSafe, readQuery } from "~/lib/shared/forms.server";
-import { mailboxAction, mailboxEnabled, mailboxPage } from "~/lib/mail";
+import { mailboxAction, mailboxOpenTo, mailboxPage } from "~/lib/mail";
 import { MessageItem } from "~/components/mailbox/MessageItem";
 import { OutboxTable } from "~/components/mailbox/OutboxTable";
 import { Section } from "~/components/mailbox/Section";
@@ -16,13 +17,13 @@ function notFound(): never {
 }
 
 export async function loader({ request }: Route.LoaderArgs) {
-  if (!mailboxEnabled()) notFound();
+  if (!mailboxOpenTo(request)) notFound();
   const url = new URL(request.url);
   return mailboxPage({ to: readQuery(url, "to", 254), open: readQuery(url, "open", 100) });
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  if (!mailboxEnabled()) notFound();
+  if (!mailboxOpenTo(request)) notFound();
   return { notice: await mailboxAction(String((await readFormSafe(request)).get("intent") ?? "")) };
 }
 
@@ -35,7 +36,7 @@ export default function DevMailbox({ loaderData: data, actionData: done }: Route
         <h1 className="text-2xl font-bold text-brand-900">Development mailbox</h1>
         <p className="text-sm text-slate-700">
           Every e-mail the app sends here goes to the local SMTP stand-in and stops there; nothing reaches a real inbox.
-          This page exists only in development and test mode.
+          This page exists only in development and test mode, and only for this machine itself.
         </p>
       </header>
       {done?.notice && (

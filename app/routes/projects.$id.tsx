@@ -92,8 +92,17 @@ export default function ProjectPage() {
             {d.systems.map((s) => (
               <tr key={s.id} className="border-t border-slate-100">
                 <NameCell href={`/systems/${s.id}`} name={s.name} />
-                <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
-                <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
+                {s.needsReview ? (
+                  // Stored inputs that do not pass the checks: nothing read from them is shown (never a default duty).
+                  <td colSpan={2} className="text-fail" data-testid={`needs-review-${s.id}`}>
+                    Needs review: the stored inputs fail {s.needsReview.problems} check{s.needsReview.problems === 1 ? "" : "s"} ({s.needsReview.places}); nothing is computed until they are fixed.
+                  </td>
+                ) : (
+                  <>
+                    <td>{s.mode === "closed-loop" ? "closed loop" : "open (static lift)"}</td>
+                    <td>{s.duty ? `${fmtFlow(d.unitSystem, s.duty.flow)} at ${fmtHead(d.unitSystem, s.duty.head)}` : "—"}</td>
+                  </>
+                )}
               </tr>
             ))}
           </ListTable>

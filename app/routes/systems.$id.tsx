@@ -3,7 +3,7 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation } from "rea
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { adjustCandidate, archiveSystem, copySystem, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects";
+import { adjustCandidate, archiveSystem, copySystem, problemFieldErrors, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, systemPage } from "~/lib/projects";
 import { DEFAULT_ENERGY_SETTINGS, readPriceCents } from "~/lib/projects/energy";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { workspaceCurrency } from "~/lib/workspaces";
@@ -20,6 +20,7 @@ import { CandidateActions } from "~/components/system-editor/CandidateActions";
 import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
 import { useUnsavedChanges } from "~/components/system-editor/useUnsavedChanges";
 import { LeaveQuestion } from "~/components/system-editor/LeaveQuestion";
+import { StoredInputReview } from "~/components/system-editor/StoredInputReview";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
 import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
@@ -33,13 +34,15 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ??
 export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const id = readId(params.id);
-  const bench = await systemWorkbench(viewerOf(m), id);
+  const { system, bench, review } = await systemPage(viewerOf(m), id);
   return {
     id,
-    name: bench.system.name,
-    project: { id: bench.system.projectId, name: bench.system.projectName },
-    input: bench.system.input,
-    view: renderDeep(workbenchView(bench), m.user.units),
+    name: system.name,
+    project: { id: system.projectId, name: system.projectName },
+    input: system.input,
+    // Stored inputs that do not pass the checks: what is wrong (in the list and beside the fields) and nothing computed.
+    review: review ? renderDeep({ ...review, fields: problemFieldErrors(review.problems) }, m.user.units) : null,
+    view: bench ? renderDeep(workbenchView(bench), m.user.units) : null,
     unitSystem: m.user.units,
     role: m.role,
     canWrite: can(m.role, "project.write"),
@@ -108,11 +111,16 @@ export default function SystemPage() {
   const formRef = useRef<HTMLFormElement>(null);
   const [draft, setDraft] = useState<string | null>(null);
   const [liveErrors, setLiveErrors] = useState<FormErrors>({});
+  const [typed, setTyped] = useState(false);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   // Live preview: while the engineer types, the form is read in the browser (same codec as the
   // server) and the unsaved inputs go to the preview API; swr keeps the last good answer.
-  const { data: live, isValidating } = useSWR(draft ? [`/api/v1/systems/${d.id}/preview`, draft] : null, postPreview, { keepPreviousData: true, revalidateOnFocus: false });
-  useEffect(() => setDraft(null), [d]);
+  // No preview while the stored inputs need review: nothing is computed until they are fixed and saved.
+  const { data: live, isValidating } = useSWR(draft && !d.review ? [`/api/v1/systems/${d.id}/preview`, draft] : null, postPreview, { keepPreviousData: true, revalidateOnFocus: false });
+  useEffect(() => {
+    setDraft(null);
+    setTyped(false);
+  }, [d]);
   const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
   const onInput = () => {
     unsaved.check();
@@ -121,32 +129,38 @@ export default function SystemPage() {
       if (!formRef.current) return;
       const r = readSystemForm(new FormData(formRef.current), d.unitSystem);
       setLiveErrors(r.errors);
+      setTyped(true);
       if (r.input) setDraft(JSON.stringify(r.input));
     }, 350);
   };
   const view = (draft && live) || d.view;
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
-  const errors = { ...(a?.errors ?? {}), ...liveErrors };
+  // The stored inputs' problems stand beside the fields until the form is read again (typing, or a save refused).
+  const storedErrors = d.review && !typed && !Object.keys(a?.errors ?? {}).length ? d.review.fields : {};
+  const errors = { ...storedErrors, ...(a?.errors ?? {}), ...liveErrors };
   const f = systemFormValues(d.input, d.unitSystem);
   const ro = !d.canWrite;
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-2">
         <PageHead trail={[["/projects", "Projects"], [`/projects/${d.project.id}`, d.project.name]]} title={d.name} />
-        <div className="no-print flex gap-2">
-          <a className="btn" href={`/systems/${d.id}/search`}>
-            Find pumps for this duty
-          </a>
-        </div>
+        {d.review ? null : (
+          <div className="no-print flex gap-2">
+            <a className="btn" href={`/systems/${d.id}/search`}>
+              Find pumps for this duty
+            </a>
+          </div>
+        )}
       </div>
       {ro ? <ReadOnlyNotice what="system" role={d.role} /> : null}
       {a?.notice ? <Notice>{a.notice}</Notice> : null}
       <LeaveQuestion blocker={unsaved.blocker} />
+      {d.review ? <StoredInputReview problems={d.review.problems} count={d.review.count} canWrite={d.canWrite} /> : null}
       <div className="grid gap-4 xl:grid-cols-[minmax(22rem,30rem)_1fr]">
         <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs" data-unsaved={unsaved.watching ? (unsaved.dirty ? "yes" : "no") : undefined}>
           <fieldset disabled={ro} className="space-y-4">
             <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
-            <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view.evaluation?.dutyCheck} />
+            <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view?.evaluation?.dutyCheck} />
             <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} />
             <RunsFieldset f={f} errors={errors} unitSystem={d.unitSystem} />
             {!ro ? (
@@ -162,35 +176,39 @@ export default function SystemPage() {
         </Form>
 
         <div className="space-y-4">
-          <section className="panel space-y-3">
-            <h2 className="font-semibold">System curve{view.candidates.length ? " and candidates" : ""}</h2>
-            {view.systemError ? <FormError error={`The system cannot be computed: ${view.systemError}`} /> : null}
-            <WorkbenchChart view={view} unitSystem={d.unitSystem} duty={draftInput.duty} title={`${d.name}: head against flow`} />
-            {view.evaluation?.warnings.length ? (
-              <ul className="text-xs text-duty-ink">
-                {view.evaluation.warnings.map((w, i) => (
-                  <li key={i}>▲ {w}</li>
-                ))}
-              </ul>
-            ) : null}
-            <RunTable view={view} unitSystem={d.unitSystem} />
-            <SizingCaution />
-          </section>
-          <section className="panel space-y-3">
-            <h2 className="font-semibold">Candidates</h2>
-            {view.candidates.length === 0 ? (
-              <p className="text-sm text-slate-600">
-                No candidates yet. <a href={`/systems/${d.id}/search`}>Search the libraries open to you</a> for pumps that meet the duty.
-              </p>
-            ) : (
-              <CandidateTable
-                view={view}
-                unitSystem={d.unitSystem}
-                actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
-              />
-            )}
-          </section>
-          <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
+          {view ? (
+            <>
+              <section className="panel space-y-3">
+                <h2 className="font-semibold">System curve{view.candidates.length ? " and candidates" : ""}</h2>
+                {view.systemError ? <FormError error={`The system cannot be computed: ${view.systemError}`} /> : null}
+                <WorkbenchChart view={view} unitSystem={d.unitSystem} duty={draftInput.duty} title={`${d.name}: head against flow`} />
+                {view.evaluation?.warnings.length ? (
+                  <ul className="text-xs text-duty-ink">
+                    {view.evaluation.warnings.map((w, i) => (
+                      <li key={i}>▲ {w}</li>
+                    ))}
+                  </ul>
+                ) : null}
+                <RunTable view={view} unitSystem={d.unitSystem} />
+                <SizingCaution />
+              </section>
+              <section className="panel space-y-3">
+                <h2 className="font-semibold">Candidates</h2>
+                {view.candidates.length === 0 ? (
+                  <p className="text-sm text-slate-600">
+                    No candidates yet. <a href={`/systems/${d.id}/search`}>Search the libraries open to you</a> for pumps that meet the duty.
+                  </p>
+                ) : (
+                  <CandidateTable
+                    view={view}
+                    unitSystem={d.unitSystem}
+                    actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
+                  />
+                )}
+              </section>
+              <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
+            </>
+          ) : null}
           {d.canWrite ? (
             <div className="no-print flex gap-2">
               <PostButton intent="copy">

@@ -3,8 +3,15 @@
 // PUT /api/v1/models/1, POST /selections/1/export.csv … came back 405 with {"message":"Unexpected Server
 // Error"} (not problem+json, no Allow, a stack trace in the server log), and GET /field/selections/1/checks
 // a 400 with the same text. Every resource route now answers both itself: 405 problem+json with Allow.
-import { afterAll, expect, test } from "vitest";
+// Pages (helper "methods", 2026-12-02): a POST to a page without an action came back 405 with a stack
+// in the server log each time; the root middleware now answers it from lib/shared/methods.ts first,
+// and React Router's own 405s (OPTIONS on a page, PROPFIND…) are no longer logged (entry.server.tsx).
+import { afterAll, afterEach, expect, test, vi } from "vitest";
+import { UNSAFE_ErrorResponseImpl as ErrorResponseImpl } from "react-router";
 import { closeDb } from "@db/client.server";
+import routeConfig from "~/routes";
+import { middleware } from "~/root";
+import { handleError } from "~/entry.server";
 import { call, makeMember } from "./harness";
 
 type Mod = { default?: unknown; loader?: unknown; action?: unknown };
@@ -12,6 +19,7 @@ const modules = import.meta.glob<Mod>("../routes/*.{ts,tsx}", { eager: true });
 const resourceRoutes = Object.entries(modules).filter(([, m]) => !m.default);
 
 afterAll(() => closeDb());
+afterEach(() => vi.restoreAllMocks());
 
 test("every resource route exports both a loader and an action (else React Router answers a wrong method with 'Unexpected Server Error')", () => {
   expect(resourceRoutes.length).toBeGreaterThan(20);
@@ -60,4 +68,55 @@ test("PUT, PATCH and DELETE on the API's POST actions: 405 problem+json with All
       expect(r.headers.get("allow"), `${method} ${file}`).toBe("POST");
     }
   }
+});
+
+type Entry = { path?: string; file: string; index?: boolean; children?: Entry[] };
+const flatten = (entries: Entry[], parent = ""): { path: string; file: string }[] =>
+  entries.flatMap((e) => {
+    const path = e.index ? parent : [parent, e.path ?? ""].filter(Boolean).join("/");
+    return [{ path, file: e.file }, ...flatten(e.children ?? [], path)];
+  });
+
+test("a POST to a page without an action: 405 with Allow: GET, HEAD from the root middleware, the route never reached, nothing logged", async () => {
+  const pages = flatten(routeConfig as Entry[]).filter((r) => {
+    const mod = modules[`../${r.file}`];
+    return mod?.default && !mod.action;
+  });
+  // Pages of app/routes.ts with no action (home, the API reference, field, a check, the tracer list, a selection, not found).
+  expect(pages.length).toBeGreaterThanOrEqual(7);
+  const logged = vi.spyOn(console, "error");
+  type Mw = (args: unknown, next: () => Promise<Response>) => Promise<Response | void>;
+  for (const page of pages) {
+    const request = new Request(`http://127.0.0.1:3999/${page.path.replace(/:\w+/g, "1").replace(/\*$/, "x")}`, {
+      method: "POST",
+      headers: { origin: "http://127.0.0.1:3999", "content-type": "application/x-www-form-urlencoded" },
+      body: "intent=x",
+    });
+    let reached = false;
+    const next = async () => ((reached = true), new Response("the route's answer"));
+    const chain = (middleware as unknown as Mw[]).reduceRight<() => Promise<Response>>((n, mw) => async () => (await mw({ request, params: {}, pattern: page.path, context: {} }, n)) as Response, next);
+    const res = await chain();
+    // RFC 9110 §15.5.6: 405 with the methods the resource takes in Allow.
+    expect([page.path, res.status, res.headers.get("allow"), reached]).toEqual([page.path, 405, "GET, HEAD", false]);
+  }
+  expect(logged).not.toHaveBeenCalled();
+});
+
+test("handleError (entry.server.tsx): React Router's own 405s are not logged; every other error is, as React Router logs it", () => {
+  const logged = vi.spyOn(console, "error").mockImplementation(() => {});
+  const args = { request: new Request("http://127.0.0.1:3999/"), params: {}, context: {} } as never;
+  // What React Router throws for a POST to a page without an action, and for PROPFIND (its getInternalRouterError).
+  handleError(new ErrorResponseImpl(405, "Method Not Allowed", new Error('You made a POST request to "/" but did not provide an `action`'), true), args);
+  handleError(new ErrorResponseImpl(405, "Method Not Allowed", new Error('Invalid request method "PROPFIND"'), true), args);
+  expect(logged).not.toHaveBeenCalled();
+  const bug = new Error("a real fault");
+  handleError(bug, args);
+  const inner = new Error("a loader's fault behind a 500");
+  handleError(new ErrorResponseImpl(500, "Internal Server Error", inner, true), args);
+  expect(logged.mock.calls).toEqual([[bug], [inner]]);
+  // A request the client gave up on is not logged (React Router's default does the same).
+  const gone = new AbortController();
+  gone.abort();
+  handleError(new Error("late"), { request: new Request("http://127.0.0.1:3999/", { signal: gone.signal }), params: {}, context: {} } as never);
+  expect(logged).toHaveBeenCalledTimes(2);
 });

@@ -4,11 +4,13 @@
 // 5xx or an uncaught error. Real route modules, real guards, real MariaDB (app/test/harness.ts).
 //
 // A route in app/routes.ts whose path parameters have no good value in GOOD_PARAMS below fails the
-// first test, so a new route cannot be added without being walked.
+// first test, so a new route cannot be added without being walked. The last two tests walk every route
+// with the methods no form sends (PUT, PATCH, DELETE) through the root middleware: 405 with Allow, and
+// no action run; and check the method table (app/lib/shared/methods.ts) against the route modules.
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
-import { closeDb, db } from "@db/client.server";
+import { closeDb, db, getPool } from "@db/client.server";
 import { fieldCheckPhotos, libraries } from "@db/schema";
 import routeConfig from "~/routes";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -23,10 +25,12 @@ import { parseCheckFields } from "~/lib/fieldchecks";
 import { fieldsForHead } from "./fieldcheck-fixture";
 import { storePicture } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
+import { middleware } from "~/root";
+import { allowedMethods, listedPatterns } from "~/lib/shared/methods";
 import { BASE, call, makeMember, type TestMember } from "./harness";
 
 type Entry = { id?: string; path?: string; file: string; index?: boolean; children?: Entry[] };
-type Mod = { loader?: unknown; action?: unknown };
+type Mod = { loader?: unknown; action?: unknown; default?: unknown };
 const modules = import.meta.glob<Mod>("../routes/*.{ts,tsx}");
 
 function flatten(entries: Entry[], parent = ""): { id: string; path: string; file: string }[] {
@@ -219,3 +223,94 @@ test("malformed urlencoded, multipart and JSON bodies on every action: no 5xx", 
   if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
   expect(fails).toEqual([]);
 }, 300_000);
+
+type Mw = (args: unknown, next: () => Promise<Response>) => Promise<Response | void>;
+
+/** Every root middleware in order, as React Router runs them, around `next` (the route's action here). */
+async function throughRoot(request: Request, pattern: string, params: Record<string, string>, next: () => Promise<Response>): Promise<Response> {
+  const chain = (middleware as unknown as Mw[]).reduceRight<() => Promise<Response>>((n, mw) => async () => (await mw({ request, params, pattern, context: {} }, n)) as Response, next);
+  try {
+    return await chain();
+  } catch (thrown) {
+    return asResponse(thrown);
+  }
+}
+
+/** What a loader or action gave back or threw, as the Response React Router would make of it. */
+function asResponse(out: unknown): Response {
+  if (out instanceof Response) return out;
+  const d = out as { type?: string; init?: ResponseInit | null };
+  if (d?.type === "DataWithResponseInit") return new Response(null, d.init ?? {});
+  if (out instanceof Error) return new Response(String(out), { status: 500 });
+  return new Response(JSON.stringify(out ?? null), { status: 200 });
+}
+
+/** Every table's checksum (MariaDB CHECKSUM TABLE): any row written, changed or removed changes it. */
+async function checksums(): Promise<Record<string, string>> {
+  const pool = getPool();
+  const tables = (await pool.query("SELECT TABLE_NAME AS name FROM information_schema.TABLES WHERE TABLE_SCHEMA = DATABASE() AND TABLE_TYPE = 'BASE TABLE'")) as { name: string }[];
+  const rows = (await pool.query(`CHECKSUM TABLE ${tables.map((t) => `\`${t.name}\``).join(", ")}`)) as { Table: string; Checksum: unknown }[];
+  return Object.fromEntries(rows.map((r) => [r.Table, String(r.Checksum)]));
+}
+
+const isApi = (path: string) => path.startsWith("api/");
+
+test("PUT, PATCH and DELETE on every route of app/routes.ts: 405 with Allow naming what the route takes, and no action run (no row changed)", async () => {
+  const fails: Failure[] = [];
+  const before = await checksums();
+  // A body each action would act on if it ran (rename, delete, sign out …), as the signed-in admin and with a write token.
+  const form = { intent: "delete", name: "Renamed by PUT", id: String(ctx.lib), confirm: ctx.m.email, email: ctx.m.email, password: "correct horse battery" };
+  for (const r of ROUTES) {
+    const mod = await load(r.file);
+    const params = GOOD_PARAMS[r.path]?.(ctx) ?? {};
+    for (const method of ["PUT", "PATCH", "DELETE"]) {
+      for (const as of AS(ctx)) {
+        const label = `${method} /${r.path} as ${as.who}`;
+        const headers = new Headers({ ...as.headers, origin: BASE, "content-type": "application/x-www-form-urlencoded" });
+        if (as.cookie) headers.set("cookie", as.cookie);
+        const request = new Request(BASE + pathFor(r.path, params), { method, headers, body: new URLSearchParams(form) });
+        let ran = false;
+        const res = await throughRoot(request, r.path, params, async () => {
+          ran = true;
+          if (!mod.action) return new Response("no action", { status: 405 }); // React Router's own answer (API routes all have one)
+          try {
+            return asResponse(await (mod.action as (a: unknown) => unknown)({ request, params, context: {} }));
+          } catch (thrown) {
+            return asResponse(thrown);
+          }
+        });
+        if (r.path === "api/*") {
+          if (res.status !== 404) fails.push(`${label} → ${res.status} (no API route here: 404 for any method)`);
+          continue;
+        }
+        // RFC 9110 §15.5.6: a 405 lists the methods the resource takes in Allow.
+        const allow = res.headers.get("allow");
+        if (res.status !== 405 || !allow) fails.push(`${label} → ${res.status}, Allow ${allow}`);
+        // Outside /api/ the root middleware answers from the table, before the action; API routes answer themselves.
+        if (!isApi(r.path) && (ran || allow !== allowedMethods(r.path).join(", "))) fails.push(`${label}: ${ran ? "the action was reached" : `Allow ${allow}`}`);
+      }
+    }
+  }
+  expect(ROUTES.length).toBeGreaterThan(40);
+  if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+  expect(fails).toEqual([]);
+  expect(await checksums()).toEqual(before);
+}, 120_000);
+
+test("the method table (lib/shared/methods.ts) says what each route outside /api/ takes: GET for a page or a loader that is not a 405, POST for an action that is not one", async () => {
+  const derived: string[] = [];
+  const table: string[] = [];
+  for (const r of ROUTES.filter((x) => !isApi(x.path))) {
+    const mod = await load(r.file);
+    const params = GOOD_PARAMS[r.path]?.(ctx) ?? {};
+    const path = pathFor(r.path, params);
+    const refuses = async (fn: unknown, method: string) => (await call(fn as never, { path, method, params, headers: { origin: BASE }, ...(method === "POST" ? { form: { intent: "x" } } : {}) })).status === 405;
+    const get = Boolean(mod.default) || (Boolean(mod.loader) && !(await refuses(mod.loader, "GET")));
+    const post = Boolean(mod.action) && !(await refuses(mod.action, "POST"));
+    derived.push(`${r.path}: ${[...(get ? ["GET", "HEAD"] : []), ...(post ? ["POST"] : [])].join(", ")}`);
+    table.push(`${r.path}: ${allowedMethods(r.path).join(", ")}`);
+  }
+  expect(table).toEqual(derived);
+  const stale = listedPatterns().filter((p) => !ROUTES.some((r) => r.path === p));
+  expect(stale).toEqual([]);
+});

@@ -6,8 +6,11 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { libraries } from "@db/schema";
+import { createLibrary } from "~/lib/libraries";
 import { freePort, makeMember } from "./harness";
 
 const ROOT = path.resolve(__dirname, "../..");
@@ -18,20 +21,27 @@ let base = "";
 let port = 0;
 let cookie = "";
 let token = "";
+let libraryId = 0;
+/** What the app wrote to stderr (React Router logs request errors there). */
+let appErr = "";
 
 beforeAll(async () => {
   if (!built) return;
   const m = await makeMember("admin");
   cookie = m.cookie;
   token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "srv", scope: "read" })).token;
+  const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
+  libraryId = await createLibrary(viewer, { name: `Methods ${Date.now()}`, description: "" });
   port = await freePort();
   base = `http://127.0.0.1:${port}`;
   app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
     cwd: ROOT,
     // APP_URL behind https (a proxy in front): HSTS must be on. Requests here come over plain http.
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "" },
-    stdio: "ignore",
+    // The dev mailbox on as npm start has it (MAILBOX_ENABLED=1), its stand-in's API on a closed port.
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "", MAILBOX_API_URL: `http://127.0.0.1:${await freePort()}`, MAILBOX_ENABLED: "1" },
+    stdio: ["ignore", "ignore", "pipe"],
   });
+  app.stderr?.on("data", (b) => (appErr += b));
   const until = Date.now() + 20_000;
   while (Date.now() < until) {
     if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return;
@@ -220,6 +230,41 @@ describe.skipIf(!built)("paths with bad percent-escapes (helper \"attack\", 2026
       expect(r.status, p).toBeLessThan(500);
       expect(r.headers.get("content-type"), p).toBe("application/problem+json");
     }
+  });
+});
+
+describe.skipIf(!built)("methods no form sends, and the dev mailbox (helper \"methods\", 2026-12-02)", () => {
+  test("PUT, PATCH and DELETE on pages: 405 with Allow and no action run (the session survives DELETE /signout, the library survives intent=delete)", async () => {
+    const send = (method: string, p: string) =>
+      fetch(`${base}${p}`, { method, redirect: "manual", headers: { cookie, origin: base, "content-type": "application/x-www-form-urlencoded" }, body: "intent=delete&email=a%40b.test&password=x" });
+    for (const [method, p, allow] of [["DELETE", "/signout", "GET, HEAD, POST"], ["PUT", `/libraries/${libraryId}`, "GET, HEAD, POST"], ["PATCH", "/signin", "GET, HEAD, POST"], ["DELETE", "/", "GET, HEAD"]]) {
+      const r = await send(method, p);
+      // RFC 9110 §15.5.6: 405 names the methods the resource takes in Allow.
+      expect([method, p, r.status, r.headers.get("allow")]).toEqual([method, p, 405, allow]);
+    }
+    expect((await fetch(`${base}/account`, { headers: { cookie }, redirect: "manual" })).status).toBe(200);
+    const [lib] = await db().select().from(libraries).where(eq(libraries.id, libraryId));
+    expect(lib?.name.startsWith("Methods ")).toBe(true);
+  });
+
+  test("a POST to a page without an action, OPTIONS and PROPFIND on a page: 405 with Allow, and no stack in the server's log", async () => {
+    const from = appErr.length;
+    const cases: [string, string, string][] = [["POST", "/field", "GET, HEAD"], ["POST", "/", "GET, HEAD"], ["OPTIONS", "/signin", "GET, HEAD, POST"], ["PROPFIND", "/", "GET, HEAD"], ["PUT", "/field", "GET, HEAD"]];
+    for (const [method, p, allow] of cases) {
+      const r = await fetch(`${base}${p}`, { method, headers: { origin: base, "content-type": "application/x-www-form-urlencoded" }, body: method === "OPTIONS" || method === "PROPFIND" ? undefined : "x=1" });
+      expect([method, p, r.status, r.headers.get("allow")]).toEqual([method, p, 405, allow]);
+    }
+    await fetch(`${base}/livez`); // the app logs before it answers; one more round trip lets the pipe deliver it
+    await new Promise((r) => setTimeout(r, 200));
+    expect(appErr.slice(from)).toBe("");
+  });
+
+  test("/dev/mailbox: served to this machine (loopback, the client address app/serve.mjs sets); a request through a proxy is a 404", async () => {
+    expect((await fetch(`${base}/dev/mailbox`)).status).toBe(200);
+    // A client's own value of the address header is overwritten with the socket's (still loopback here).
+    expect((await fetch(`${base}/dev/mailbox`, { headers: { "x-dutymark-client-ip": "203.0.113.7" } })).status).toBe(200);
+    expect((await fetch(`${base}/dev/mailbox`, { headers: { "x-forwarded-for": "203.0.113.7" } })).status).toBe(404);
+    expect((await fetch(`${base}/dev/mailbox`, { headers: { forwarded: "for=203.0.113.7" } })).status).toBe(404);
   });
 });
 

@@ -4,10 +4,11 @@ import { CONTROL_MODES, CIRCULATOR_PROFILE_SOURCE, defaultCirculatorProfile } fr
 import { MAX_PROFILE_STEPS, type EnergySettings } from "~/lib/projects/energy";
 import { NumberField } from "./NumberField";
 
-const pctText = (x: number) => String(Math.round(x * 10000) / 100);
+// Blank for NaN: a stored value that is missing or not a number (stored-input.ts `editorInput`).
+const pctText = (x: number) => (Number.isFinite(x) ? String(Math.round(x * 10000) / 100) : "");
 
 export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { energy: EnergySettings; hoursPerYear: number; errors: Record<string, string>; currency: string }) {
-  const common = defaultCirculatorProfile(Math.min(Math.max(hoursPerYear, 0), 8784));
+  const common = defaultCirculatorProfile(Number.isFinite(hoursPerYear) ? Math.min(Math.max(hoursPerYear, 0), 8784) : 0);
   const rows = energy.profile ?? common;
   const err = (k: string) => (errors[k] ? <p className="text-xs text-fail" role="alert">{errors[k]}</p> : null);
   return (
@@ -60,7 +61,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
                   {err(`energy.step.${i}.pct`)}
                 </td>
                 <td>
-                  <input name={`energy.step.${i}.hours`} aria-label={`Step ${i + 1} hours per year`} inputMode="decimal" className="field w-24 py-0.5" defaultValue={rows[i] ? String(Math.round(rows[i].hours * 100) / 100) : ""} />
+                  <input name={`energy.step.${i}.hours`} aria-label={`Step ${i + 1} hours per year`} inputMode="decimal" className="field w-24 py-0.5" defaultValue={rows[i] && Number.isFinite(rows[i].hours) ? String(Math.round(rows[i].hours * 100) / 100) : ""} />
                   {err(`energy.step.${i}.hours`)}
                 </td>
               </tr>
@@ -69,7 +70,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         </table>
       </fieldset>
       <div className="grid grid-cols-3 gap-2">
-        <NumberField label="Years" name="energy.years" def={String(energy.years)} errors={errors} inputMode="numeric" />
+        <NumberField label="Years" name="energy.years" def={Number.isFinite(energy.years) ? String(energy.years) : ""} errors={errors} inputMode="numeric" />
         <NumberField label="Tariff escalation (% per year)" name="energy.escalation" def={pctText(energy.escalation)} errors={errors} />
         <NumberField label="Discount rate (% per year)" name="energy.discount" def={pctText(energy.discountRate)} errors={errors} />
       </div>

@@ -9,6 +9,7 @@ import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
 import { oncePerRequest } from "../shared/request-scope.server";
 import { picksOf, unitsOf, type PresetId } from "../shared/units";
+import { CLIENT_IP_HEADER, clientIp } from "../shared/client-address";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
 
@@ -72,10 +73,7 @@ export const verifyPassword = (stored: string, password: string) => verify(store
 let dummyHash: Promise<string> | null = null;
 const dummy = () => (dummyHash ??= hash("no-such-account-" + Math.random()));
 
-export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
-export function clientIp(request: Request): string {
-  return (request.headers.get(CLIENT_IP_HEADER) ?? "").slice(0, 64);
-}
+export { CLIENT_IP_HEADER, clientIp };
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 

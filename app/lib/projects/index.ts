@@ -1,6 +1,6 @@
 // Projects, systems, candidates and selections, public face for loaders, actions and scripts (server
 // only: it re-exports `.server` modules; browser code imports the pure files by path: hydraulics,
-// system-form, workbench-view, search-view, candidate-judgement, energy, energy-form, adjust-form).
+// system-form, workbench-view, search-view, candidate-judgement, energy, energy-form, adjust-form, stored-input).
 export * from "./projects.server";
 export * from "./selections.server";
 export * from "./candidates.server";
@@ -16,3 +16,4 @@ export * from "./candidate-judgement";
 export * from "./energy";
 export * from "./energy-form";
 export * from "./adjust-form";
+export * from "./stored-input";

@@ -23,6 +23,7 @@ import {
 import { candidateEnergy, type CandidateEnergy } from "./energy";
 import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
+import { editorInput, MAX_PROBLEMS_LISTED, problemLine, problemPlaces, readStoredInput, type InputProblem } from "./stored-input";
 
 export const MAX_CANDIDATES = 6;
 const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
@@ -109,9 +110,27 @@ export async function copyProject(viewer: Viewer, projectId: number) {
 }
 
 // ── Systems ─────────────────────────────────────────────────────────────────────────────────
-export function parseSystemInput(json: string): SystemInput {
-  const r = v.safeParse(SystemInputSchema, JSON.parse(json));
-  return r.success ? r.output : defaultSystemInput();
+/** A system row in the viewer's workspace with its project's name, else a 404; its stored input is not read. */
+async function systemRecord(viewer: Viewer, systemId: number) {
+  const [row] = await db()
+    .select({ s: systems, projectName: projects.name, projectId: projects.id })
+    .from(systems)
+    .innerJoin(projects, eq(projects.id, systems.projectId))
+    .where(and(eq(systems.id, systemId), eq(systems.workspaceId, viewer.workspace.id)));
+  if (!row) throw notFound("system");
+  return { ...row.s, projectName: row.projectName };
+}
+
+/**
+ * The refusal of anything computed from a stored input that does not pass the schema (409, never the default system in its
+ * place): `detail` names where it is wrong, `errors` what (quantity tokens, rendered by the API in the caller's units).
+ */
+export function storedInputRefusal(name: string, problems: readonly InputProblem[]) {
+  const n = problems.length;
+  const detail =
+    `The stored inputs of the system "${name}" do not pass the system checks (${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), ` +
+    "so nothing is computed from them: no system curve, operating point, search or verdict. Open the system page to see what is wrong, fix it and save.";
+  return data({ detail, errors: problems.slice(0, MAX_PROBLEMS_LISTED).map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
 }
 
 export async function listSystems(viewer: Viewer, projectId: number) {
@@ -122,19 +141,18 @@ export async function listSystems(viewer: Viewer, projectId: number) {
     .where(and(eq(systems.projectId, p.id), isNull(systems.archivedAt)))
     .orderBy(asc(systems.name));
   return rows.map((s) => {
-    const input = parseSystemInput(s.inputJson);
-    return { id: s.id, name: s.name, duty: input.duty, mode: input.mode, updatedAt: s.updatedAt.toISOString() };
+    const r = readStoredInput(s.inputJson);
+    const needsReview = r.ok ? null : { problems: r.problems.length, places: problemPlaces(r.problems, 3) };
+    return { id: s.id, name: s.name, duty: r.ok ? r.input.duty : null, mode: r.ok ? r.input.mode : null, needsReview, updatedAt: s.updatedAt.toISOString() };
   });
 }
 
+/** The system with its stored input; refuses (409, `storedInputRefusal`) when that input does not pass the schema. */
 export async function getSystem(viewer: Viewer, systemId: number) {
-  const [row] = await db()
-    .select({ s: systems, projectName: projects.name, projectId: projects.id })
-    .from(systems)
-    .innerJoin(projects, eq(projects.id, systems.projectId))
-    .where(and(eq(systems.id, systemId), eq(systems.workspaceId, viewer.workspace.id)));
-  if (!row) throw notFound("system");
-  return { ...row.s, projectName: row.projectName, input: parseSystemInput(row.s.inputJson) };
+  const row = await systemRecord(viewer, systemId);
+  const r = readStoredInput(row.inputJson);
+  if (!r.ok) throw storedInputRefusal(row.name, r.problems);
+  return { ...row, input: r.input };
 }
 
 export async function createSystem(viewer: Viewer, projectId: number, name: string, input: SystemInput = defaultSystemInput()) {
@@ -147,12 +165,13 @@ export async function createSystem(viewer: Viewer, projectId: number, name: stri
 }
 
 export async function saveSystem(viewer: Viewer, systemId: number, name: string, input: SystemInput) {
-  const s = await getSystem(viewer, systemId);
+  const s = await systemRecord(viewer, systemId); // saving is how a stored input that no longer passes is fixed
   await db().update(systems).set({ name, inputJson: JSON.stringify(v.parse(SystemInputSchema, input)), updatedAt: new Date() }).where(eq(systems.id, s.id));
 }
 
+/** Copies the stored document as it is (one that does not pass the schema stays in need of review in the copy). */
 export async function copySystem(viewer: Viewer, systemId: number) {
-  const s = await getSystem(viewer, systemId);
+  const s = await systemRecord(viewer, systemId);
   return withTransaction(async (tx) => {
     const [{ id }] = await tx.insert(systems).values({ projectId: s.projectId, workspaceId: s.workspaceId, name: `${s.name} (copy)`.slice(0, 160), inputJson: s.inputJson }).$returningId();
     const cands = await tx.select().from(candidates).where(eq(candidates.systemId, s.id));
@@ -162,7 +181,7 @@ export async function copySystem(viewer: Viewer, systemId: number) {
 }
 
 export async function archiveSystem(viewer: Viewer, systemId: number) {
-  const s = await getSystem(viewer, systemId);
+  const s = await systemRecord(viewer, systemId);
   await db().update(systems).set({ archivedAt: new Date() }).where(eq(systems.id, s.id));
   return s.projectId;
 }
@@ -217,7 +236,7 @@ export async function openCandidates(viewer: Viewer, systemId: number) {
 }
 
 export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
-  const s = await getSystem(viewer, systemId);
+  const s = await systemRecord(viewer, systemId);
   const rows = await openCandidates(viewer, s.id);
   if (rows.length === 0) return [];
   const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
@@ -273,11 +292,31 @@ export async function adjustCandidate(viewer: Viewer, candidateId: number, adjus
   await db().update(candidates).set({ adjustmentJson: JSON.stringify(v.parse(AdjustmentSchema, adjustment)) }).where(eq(candidates.id, c.id));
 }
 
-/** The system with every candidate evaluated on it (the page's and the report's numbers). */
+/**
+ * The system with every candidate evaluated on it (the page's and the report's numbers). Refuses (409) when the stored
+ * input does not pass the schema, unless `inputOverride` (the preview's unsaved inputs) replaces it.
+ */
 export async function systemWorkbench(viewer: Viewer, systemId: number, inputOverride?: SystemInput) {
-  const stored = await getSystem(viewer, systemId);
-  const system = inputOverride ? { ...stored, input: inputOverride } : stored;
-  const cands = await listCandidates(viewer, systemId);
+  const system = inputOverride ? { ...(await systemRecord(viewer, systemId)), input: inputOverride } : await getSystem(viewer, systemId);
+  return workbenchOf(viewer, system);
+}
+
+/**
+ * The system page: the workbench when the stored input passes the schema; else `review` (its problems) and the stored
+ * values as the editor can show them (`editorInput`), with nothing computed from them.
+ */
+export async function systemPage(viewer: Viewer, systemId: number) {
+  const row = await systemRecord(viewer, systemId);
+  const r = readStoredInput(row.inputJson);
+  if (r.ok) {
+    const bench = await workbenchOf(viewer, { ...row, input: r.input });
+    return { system: bench.system, bench, review: null };
+  }
+  return { system: { ...row, input: editorInput(r.raw) }, bench: null, review: { count: r.problems.length, problems: r.problems.slice(0, MAX_PROBLEMS_LISTED) } };
+}
+
+async function workbenchOf(viewer: Viewer, system: Awaited<ReturnType<typeof systemRecord>> & { input: SystemInput }) {
+  const cands = await listCandidates(viewer, system.id);
   const flowMax = flowMaxOf(system.input, candidatesFlowMax(cands));
   let evaluation: ReturnType<typeof evaluateSystem> | null = null;
   let systemError: string | null = null;

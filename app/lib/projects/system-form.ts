@@ -27,6 +27,7 @@ export const EDITOR_FITTINGS = [
 
 /** SI → display number, rounded to a sensible number of significant digits for a form field. */
 export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): string {
+  if (!Number.isFinite(si)) return ""; // a stored value that is missing or not a number (stored-input.ts `editorInput`): blank
   const x = fromSI(q, unitOf(sys, q), si);
   if (!Number.isFinite(x)) return "";
   if (x === 0) return "0";
@@ -144,8 +145,8 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
     energy: readEnergyForm(f, errors),
   };
   // Water's properties are tabulated for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
-  // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would fall
-  // back to the default system.)
+  // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would need
+  // review before anything is computed from it, stored-input.ts.)
   if (raw.fluid.kind === "water" && (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max)) {
     errors.temperature ??= `Water is covered from ${qt("temperature", WATER_RANGE_C.min)} to ${qt("temperature", WATER_RANGE_C.max)}: for a temperature outside it, describe the liquid as a user-defined fluid.`;
   }
@@ -160,7 +161,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
 }
 
 /** Maps a schema issue path to the form field that holds it. */
-function fieldFor(path: unknown[]): string {
+export function fieldFor(path: unknown[]): string {
   const [a, b, c] = path;
   if (a === "runs" && typeof b === "number") {
     const map: Record<string, string> = { diameter: "diameter", roughness: "roughness", agedRoughness: "agedRoughness", length: "length", extraK: "extraK" };
@@ -173,6 +174,9 @@ function fieldFor(path: unknown[]): string {
   if (a === "energy") return energyField(path.slice(1));
   return String(a ?? "_form");
 }
+
+/** A plain number for a field; blank for NaN (a stored value that is missing or not a number, stored-input.ts `editorInput`). */
+const plain = (x: number) => (Number.isFinite(x) ? String(x) : "");
 
 /** Field values for the editor in display units (strings, as typed). */
 export function systemFormValues(input: SystemInput, sys: UnitChoice) {
@@ -193,11 +197,11 @@ export function systemFormValues(input: SystemInput, sys: UnitChoice) {
     dutyFlow: input.duty ? show(sys, "flow", input.duty.flow) : "",
     dutyHead: input.duty ? show(sys, "head", input.duty.head) : "",
     flowMax: input.flowMax > 0 ? show(sys, "flow", input.flowMax) : "",
-    hoursPerYear: String(input.hoursPerYear),
-    tariffPerKWh: String(input.tariffPerKWh),
-    npshMargin: String(input.npshMargin),
-    tolMinus: String(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus * 100).toFixed(4)),
-    tolPlus: String(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).plus * 100).toFixed(4)),
+    hoursPerYear: plain(input.hoursPerYear),
+    tariffPerKWh: plain(input.tariffPerKWh),
+    npshMargin: plain(input.npshMargin),
+    tolMinus: plain(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus * 100).toFixed(4)),
+    tolPlus: plain(+((input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).plus * 100).toFixed(4)),
     runs: input.runs.map((r) => {
       let mat: ReturnType<typeof materialOf> | null = null;
       try {
@@ -217,7 +221,7 @@ export function systemFormValues(input: SystemInput, sys: UnitChoice) {
         roughnessPlaceholder: mat ? show(sys, "roughness", mat.roughnessNew) : "",
         agedPlaceholder: mat ? show(sys, "roughness", mat.roughnessAged) : "",
         length: show(sys, "length", r.length),
-        extraK: String(r.extraK),
+        extraK: plain(r.extraK),
         fittings: Object.fromEntries(r.fittings.map((x) => [x.id, x.count])) as Record<string, number>,
       };
     }),

@@ -1,6 +1,6 @@
 // Read API for systems: the workbench view (as the live preview) and the duty-point search, for
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
-// services it calls (getSystem → 404 for another workspace's system).
+// services it calls (getSystem → 404 for another workspace's system, 409 for stored inputs that fail the schema).
 import type { Viewer } from "../libraries";
 import { systemWorkbench } from "./projects.server";
 import { searchForSystem, type SearchFilters } from "./search.server";

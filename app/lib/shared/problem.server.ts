@@ -15,6 +15,11 @@ export const forbidden = (detail = "This token or role may not do this.") => pro
 export const notFound = (detail = "No such resource in this workspace.") => problem({ title: "Not Found", status: 404, detail });
 export const badRequest = (detail: string, extra?: Record<string, unknown>) =>
   problem({ title: "Bad Request", status: 400, detail, ...extra });
-/** The method a resource route does not take (without it React Router answers 'Unexpected Server Error'). */
-export const methodNotAllowed = (allow: "GET" | "POST", detail = `Use ${allow} here.`) =>
-  problem({ title: "Method Not Allowed", status: 405, detail }, { Allow: allow });
+/**
+ * The method a route does not take, with the ones it does in Allow (a resource route's own answer;
+ * the root middleware's for every route outside /api/: app/lib/shared/methods.ts).
+ */
+export const methodNotAllowed = (allow: string | readonly string[], detail?: string) => {
+  const list = typeof allow === "string" ? allow : allow.join(", ");
+  return problem({ title: "Method Not Allowed", status: 405, detail: detail ?? `Use ${list} here.` }, { Allow: list });
+};
