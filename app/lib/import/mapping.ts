@@ -17,6 +17,8 @@ import {
   POWER_UNITS,
   SPEED_UNITS,
   guessHeader,
+  headerUnitRefusal,
+  refusalMessage,
   unitAllowed,
   type DiameterUnit,
   type Field,
@@ -164,7 +166,9 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
       seen.set(k, c);
       continue;
     }
-    if (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header)) {
+    // A column whose header unit can be read wins over one whose unit word is refused ("Head (m)" over "Head (kPa)").
+    const readable = headerUnitRefusal(prev.header, prev.field) !== null && headerUnitRefusal(c.header, c.field) === null;
+    if (readable || (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header))) {
       prev.field = "ignore";
       prev.unit = null;
       prev.unitSource = undefined;
@@ -233,6 +237,10 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
     if (c.index >= headers.length) p(`column ${c.index + 1} (“${c.header}”) is mapped to ${c.field} but the file has only ${headers.length} columns`, c.header);
     else if (c.header !== headers[c.index])
       p(`column ${c.index + 1} was saved as “${c.header}” but this file calls it “${headers[c.index]}”: check its field and unit`, headers[c.index], "warning", "header-changed");
+    // A unit word the field does not take (head in kPa, speed in Hz) is an error until the user chooses the unit for this header.
+    const h = headers[c.index] ?? c.header;
+    const refused = c.unitSource !== "user" || h !== c.header ? headerUnitRefusal(h, c.field) : null;
+    if (refused) p(refusalMessage(h, refused), h);
   }
   const used = mapping.columns.filter((c) => c.field !== "ignore" && c.field !== "notes");
   const byKey = new Map<string, MappedColumn[]>();
