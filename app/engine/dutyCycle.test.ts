@@ -92,7 +92,7 @@ describe("a control curve below the system curve: the step is not met", () => {
     expect(r.complete).toBe(false);
     expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
     // 18 × (0.5 + 0.5 × 0.25) = 11.25 m; 12 + 6 × 0.25² = 12.375 m (hand calculation)
-    expect(r.steps[0].message).toMatch(/⟦head\|11\.25⟧ at ⟦flow\|[^⟧]+⟧ but the system needs ⟦head\|12\.375⟧/);
+    expect(r.steps[0].message).toMatch(/⟦head\|11\.25\|12\.375⟧ at ⟦flow\|[^⟧]+⟧ but the system needs ⟦head\|12\.375\|limit:11\.25⟧/); // each head's token carries the other (qtPair)
     expect(r.steps[0].message).toMatch(/raise the set point.*system-curve control/);
   });
 
