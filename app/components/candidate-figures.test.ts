@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CandidateTable } from "./workbench";
+import { bepPercentText, npshMarginText } from "./candidate-figures";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/candidate-input";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { SI_UNITS, US_UNITS, toChosen, type UnitChoice } from "~/lib/shared/units";
@@ -75,6 +76,13 @@ describe("the candidates table's judged figures read apart from their limits", (
         for (const l of [1, req]) expectApart(lowest![1], ratio, l, `lowest ${lowest![1]} against ${l}`);
       }
     }
+  });
+  it("the search page's cells use the same helpers (hand-written cases; POR 70–120 %, wanted margin 1.1)", () => {
+    expect(bepPercentText(0.6996, false)).toBe("69.96 %");
+    expect(bepPercentText(1.2004, false)).toBe("120.04 %");
+    expect(bepPercentText(0.7004, true)).toBe("70 %"); // inside: the rounded end reads true
+    expect(npshMarginText(1.0996, 1.1)).toBe("1.0996");
+    expect(npshMarginText(1.0996, undefined)).toBe("1.10"); // a selection frozen before the wanted ratio was kept: apart from 1 only
   });
   it("values well apart from their limits read as before (hand-written cases)", () => {
     expect(cell(view({ ...ok, bepRatio: 0.55, inPor: false }, 1.1), SI_UNITS, "Position vs BEP")).toBe("55 % of BEP flow — outside POR");

@@ -1,8 +1,17 @@
 // The candidates table's figures that sit beside a status they decide (POR, NPSH), as text in the
 // reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
-// product concludes at the edges"). Pure; used by CandidateTable in ./workbench.tsx.
+// product concludes at the edges"). Pure; used by CandidateTable in ./workbench.tsx and the search page's rows.
 import { POR_FRACTION } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+
+/**
+ * A flow as a percentage of BEP flow: whole percent, with the decimals it needs outside the POR not to read as its end ("69.96 %", not "70 %").
+ * @param ratio Q / Q_BEP (dimensionless)
+ * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known
+ */
+export function bepPercentText(ratio: number, inPor: boolean | null | undefined): string {
+  return inPor === false ? fmtPctExact(ratio, [POR_FRACTION.min, POR_FRACTION.max], 0) : fmtPct(ratio, 0);
+}
 
 /**
  * The operating flow as a share of BEP flow, e.g. "69.96 % of BEP flow — outside POR" (not "70 %").
@@ -10,7 +19,7 @@ import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/
  * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known
  */
 export function bepPositionText(ratio: number, inPor: boolean | null | undefined): string {
-  return inPor === false ? `${fmtPctExact(ratio, [POR_FRACTION.min, POR_FRACTION.max], 0)} of BEP flow — outside POR` : `${fmtPct(ratio, 0)} of BEP flow`;
+  return `${bepPercentText(ratio, inPor)} of BEP flow${inPor === false ? " — outside POR" : ""}`;
 }
 
 /**
