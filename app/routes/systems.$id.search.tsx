@@ -10,6 +10,7 @@ import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
+import { bepPercentText, npshMarginText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
@@ -58,6 +59,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     name: res.system.name,
     project: { id: res.system.projectId, name: res.system.projectName },
     duty: res.system.input.duty,
+    npshMarginWanted: res.system.input.npshMargin,
     unitSystem: sys,
     message: res.message,
     stats: res.stats,
@@ -229,10 +231,10 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>
                     <td>
-                      {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
+                      {r.bepRatio != null ? bepPercentText(r.bepRatio, r.inPor) : "—"}
                       {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
                     </td>
-                    <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
+                    <td>{r.npshMargin != null ? npshMarginText(r.npshMargin, d.npshMarginWanted) : "—"}</td>
                     <td>{fmtPower(sys, r.shaftPower)}</td>
                     <td className="max-w-md text-xs">{r.reason}</td>
                     <td>
