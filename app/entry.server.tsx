@@ -9,6 +9,11 @@ import { assertSettings } from "~/lib/shared/env.server";
 import { encodeDocument } from "~/lib/shared/encode-document.server";
 import { allowedMethods, patternOf } from "~/lib/shared/methods";
 
+// For app/serve.mjs, which answers these before React Router sees the request (it reads them from the build
+// as it reads startupSettings): methods React Router does not take at all, and cross-site writes.
+export { unknownMethodAnswer } from "~/lib/shared/methods";
+export { csrfRefusal } from "~/lib/auth/csrf.server";
+
 /**
  * Every setting, validated once when the server build is loaded: a missing or bad value stops the
  * server here with one line per problem (app/serve.mjs prints them), instead of failing later.

@@ -5,6 +5,8 @@
 //  - security headers on every response through helmet: a per-request nonce CSP (no inline script
 //    without it), form-action limited to our origin and the Stripe checkout, HSTS behind https,
 //  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
+//  - answers of its own, before React Router, where React Router would refuse first and log a stack: a method
+//    it does not take (PROPFIND, TRACE…: 405 with the route's Allow) and a cross-site write (our CSRF check: 403),
 //  - a clean stop on SIGTERM/SIGINT (HTTP server closed, then the process exits so the DB pool ends).
 import http from "node:http";
 import fs from "node:fs";
@@ -35,6 +37,8 @@ try {
 /** Validated by app/lib/shared/env.server.ts when the build loaded (app/entry.server.tsx). */
 const settings = build.entry.module.startupSettings;
 const { port, host, trustProxy } = settings;
+/** app/entry.server.tsx hands these over from app/lib: lib/shared/methods.ts and lib/auth/csrf.server.ts. */
+const { unknownMethodAnswer, csrfRefusal } = build.entry.module;
 
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
 /** Read by app/entry.server.tsx; always overwritten here. */
@@ -126,6 +130,44 @@ function bodyLimit(req, res, next) {
   next();
 }
 
+/**
+ * The request's URL as @react-router/express builds it for the app (createRemixRequest, 7.18): the CSRF
+ * check compares the Origin with this URL's origin, here exactly as in the root middleware.
+ */
+function appUrlOf(req) {
+  const [, forwardedPort] = req.app.enabled("trust proxy") ? (req.get("X-Forwarded-Host")?.split(":") ?? []) : [];
+  const [, hostPort] = req.get("host")?.split(":") ?? [];
+  const a = Number.parseInt(forwardedPort, 10);
+  const b = Number.parseInt(hostPort, 10);
+  const p = Number.isSafeInteger(a) ? a : Number.isSafeInteger(b) ? b : "";
+  const hostname = req.hostname.split(/[\\/?#@]/)[0] || "localhost";
+  return `${req.protocol}://${hostname}${p ? `:${p}` : ""}${req.originalUrl}`;
+}
+
+/** Our own refusal: problem+json under /api/, plain text elsewhere. Nothing of the request is echoed but its method. */
+function refuse(res, api, status, title, detail, headers = {}) {
+  res.writeHead(status, { ...headers, "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", "Cache-Control": "no-store" });
+  res.end(api ? JSON.stringify({ type: "about:blank", title, status, detail }) : detail);
+}
+
+/**
+ * What React Router would refuse before any middleware of ours runs, answered here instead: a method it does not
+ * take (its 405 on a resource route said "Unexpected Server Error", with no Allow and a stack in the log), and a
+ * cross-site write (its own Origin check on document and `.data` POSTs answered 400 and logged two stacks a request,
+ * so anyone could fill the log). The CSRF check is the root middleware's own (lib/auth/csrf.server.ts), run earlier.
+ */
+function beforeRouter(req, res, next) {
+  const pathname = req.path;
+  const api = pathname.startsWith("/api/");
+  const unknown = unknownMethodAnswer(build.routes, req.method, pathname);
+  if (unknown?.status === 405) return refuse(res, api, 405, "Method Not Allowed", unknown.detail, { Allow: unknown.allow });
+  if (unknown) return refuse(res, api, unknown.status, "Not Found", unknown.detail);
+  const request = { method: req.method, get url() { return appUrlOf(req); }, headers: { get: (name) => req.get(name) ?? null } };
+  const refusal = csrfRefusal(request);
+  if (refusal) return refuse(res, api, 403, "Forbidden", refusal);
+  next();
+}
+
 const app = express();
 app.disable("x-powered-by");
 if (trustProxy) app.set("trust proxy", true);
@@ -156,6 +198,7 @@ app.use("/assets", express.static(path.join(assetsDir, "assets"), { immutable: t
 const publicNames = new Set(fs.readdirSync(assetsDir).filter((name) => name !== "assets"));
 const publicFiles = express.static(assetsDir, { maxAge: "1h" });
 app.use((req, res, next) => (publicNames.has(req.path.split("/")[1]) ? publicFiles(req, res, next) : next()));
+app.use(beforeRouter);
 app.use(bodyLimit);
 // Mounted with use(), not all("*"): a route pattern makes Express decode the path first, and a bad escape
 // (/projects/%FF) became its own HTML 400 with a URIError logged; the router answers such paths (404).

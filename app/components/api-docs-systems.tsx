@@ -31,7 +31,7 @@ const SEARCH_FIELDS: [string, string][] = [
 const FIELD_HEAD = ["field", "meaning (SI units)"];
 const FIELD_CELLS = ["font-mono text-xs"];
 
-export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => React.ReactNode }) {
+export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { children: string }) => React.ReactNode; pageRows: number; judged: number }) {
   return (
     <section id="systems" className="panel space-y-3">
       <h2 className="text-xl font-semibold">Systems API (read)</h2>
@@ -46,11 +46,14 @@ export function SystemsApiDocs({ Code }: { Code: (p: { children: string }) => Re
       <h3 className="font-semibold">GET /api/v1/systems/:id</h3>
       <p className="text-sm text-slate-700">The stored system evaluated with its candidates: the same view as the live preview.</p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SYSTEM_FIELDS} />
-      <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed]</h3>
+      <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed][&amp;page=N]</h3>
       <p className="text-sm text-slate-700">
-        Pumps from the libraries open to your workspace that meet the system's stored duty, ranked:{" "}
-        <code>{"{ duty, message, stats, results: [...] }"}</code>. Without a duty, <code>results</code> is empty and{" "}
-        <code>message</code> says why; an unknown <code>method</code> is a 400.
+        Pumps from the libraries open to your workspace that meet the system's stored duty, ranked, {pageRows} a page:{" "}
+        <code>{"{ duty, message, stats, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
+        The search judges the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged} (fewer when
+        rows outside the catalogue are left out); a page is a slice of one ranking, so <code>rank</code> runs on across pages.
+        Without <code>page</code> the answer is the first {pageRows} results, as before paging. Without a duty,{" "}
+        <code>results</code> is empty and <code>message</code> says why; an unknown <code>method</code> is a 400.
       </p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SEARCH_FIELDS} />
       <h3 className="font-semibold">Verdict statuses</h3>

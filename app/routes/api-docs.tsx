@@ -5,7 +5,8 @@ import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
 import { DocTable } from "~/components/DocTable";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { MODEL_PAGE_ROWS } from "~/lib/libraries";
+import { CURVE_PAGE_SETS, MODEL_PAGE_ROWS } from "~/lib/libraries";
+import { SEARCH_EVALUATED, SEARCH_SHOWN } from "~/lib/projects";
 
 // /api — how to call Dutymark from other software: the public calculators and the account API.
 // Field tables and limits are generated from the request schemas (app/lib/calc-api/docs.ts).
@@ -15,8 +16,17 @@ export function loader() {
     rate: ANON_RATE_LIMIT,
     endpoints: CALC_ENDPOINT_DOCS.map((e) => ({ ...e, fields: describeRequest(REQUEST_SCHEMAS[e.id]) })),
     correlations: calculatorCorrelations(),
-    /** Models a page of GET /api/v1/libraries/:id/models (the route answers with the same constant). */
-    modelPageRows: MODEL_PAGE_ROWS,
+    /** Rows a page of the API's lists (each route answers with the same constant). */
+    pageSizes: {
+      /** GET /api/v1/libraries/:id/models */
+      models: MODEL_PAGE_ROWS,
+      /** GET /api/v1/libraries/:id/curves (sets with their points) */
+      curveSets: CURVE_PAGE_SETS,
+      /** GET /api/v1/systems/:id/search */
+      searchResults: SEARCH_SHOWN,
+    },
+    /** The search judges at most this many distinct curves: its pages are slices of those. */
+    searchJudged: SEARCH_EVALUATED,
   };
 }
 
@@ -40,28 +50,44 @@ Content-Type: application/problem+json
 
 const DIMENSIONLESS = "dimensionless: efficiency (a fraction 0–1, not per cent), minor_k (ΣK), reynolds, friction_factor, relative_roughness";
 
-const accountEndpoints = (modelPageRows: number): [string, string, string][] => [
+type PageSizes = ReturnType<typeof loader>["pageSizes"];
+
+const accountEndpoints = (size: PageSizes): [string, string, string][] => [
   ["GET /api/v1/me", "workspace.read", "Who the token speaks for: user id, workspace, role, token scope."],
   ["GET /api/v1/libraries", "library.read", "Every pump library you may see; locked shared libraries are listed without curves."],
   [
-    "GET /api/v1/libraries/:id/curves[?revision=N]",
+    "GET /api/v1/libraries/:id/curves[?revision=N][&page=N]",
     "library.read",
-    "The curve sets of one library (latest revision unless given), SI: flow m³/s, head m, efficiency 0–1, power W, NPSHr m, impeller diameter m, speed rpm. 403 when a shared library needs the Network plan.",
+    `The curve sets of one library (latest revision unless given) with their points, SI: flow m³/s, head m, efficiency 0–1, power W, NPSHr m, impeller diameter m, speed rpm; by model name, then speed, then impeller (largest first); ${size.curveSets} sets a page: { units, revision, paging, links, curveSets }. revision is the revision answered and every link names it, so following links.next reads one revision even when a new import lands between your requests. Changed: this list used to answer every curve set at once; without page it now answers the first page only, so a client written before paging reads at most ${size.curveSets} sets of a larger library and sees no error — read paging.pages, or follow links.next until it is null. 403 when a shared library needs the Network plan.`,
   ],
   [
     "GET /api/v1/libraries/:id/models[?page=N]",
     "library.read",
-    `The models of one library's current revision with their curve sets (no points; flowMax m³/s, headMax m, impeller diameter m, speed rpm), in name order, ${modelPageRows} a page: { units, paging: { page, pages, pageSize, total }, links: { self, first, prev, next, last }, models }. Pages count from 1; a page past the last answers the last, and a page that is not a whole number from 1 (0, -1, 1.5, 1e9, abc) the first — paging.page says which page was answered; follow links.next (null on the last page) to read every model once. 403 when a shared library needs the Network plan.`,
+    `The models of one library's current revision with their curve sets (no points; flowMax m³/s, headMax m, impeller diameter m, speed rpm), in name order, ${size.models} a page: { units, paging, links, models }. 403 when a shared library needs the Network plan.`,
   ],
   ["GET /api/v1/models/:id", "library.read", "One model (name, type, size, notes), its library and revision, and its curve sets with their points, SI as for …/curves."],
 ];
+
+/** How every list of the API pages (stated once; each list's row gives its page size). */
+function PagingDocs() {
+  return (
+    <p id="paging" className="text-sm text-slate-700">
+      <strong>Lists come a page at a time.</strong> Beside the list each answer carries{" "}
+      <code>{"paging: { page, pages, pageSize, total }"}</code> and <code>{"links: { self, first, prev, next, last }"}</code>{" "}
+      (paths with the rest of your query kept; <code>prev</code> is null on the first page, <code>next</code> on the last).
+      Pages count from 1; a page past the last answers the last, and a page that is not a whole number from 1 (0, -1, 1.5,
+      1e9, abc) answers the first — <code>paging.page</code> says which page you got. To read a whole list, follow{" "}
+      <code>links.next</code> until it is null.
+    </p>
+  );
+}
 
 function Code({ children }: { children: string }) {
   return <pre tabIndex={0} className="mt-1 overflow-x-auto rounded-md bg-slate-900 p-3 text-xs leading-relaxed text-slate-100">{children}</pre>;
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {
-  const { limits, rate, endpoints, correlations, modelPageRows } = loaderData;
+  const { limits, rate, endpoints, correlations, pageSizes, searchJudged } = loaderData;
   return (
     <div className="max-w-4xl space-y-8">
       <header className="space-y-2">
@@ -201,12 +227,13 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           session; without either, 401. A token acts for its workspace with its owner's role; a role that may not do
           something gets 403.
         </p>
-        <DocTable head={["request", "needs", "answer"]} cells={["font-mono", "font-mono text-xs"]} rows={accountEndpoints(modelPageRows)} />
+        <DocTable head={["request", "needs", "answer"]} cells={["font-mono", "font-mono text-xs"]} rows={accountEndpoints(pageSizes)} />
+        <PagingDocs />
         <Code>{`curl -sS https://<your Dutymark address>/api/v1/libraries \\
   -H 'Authorization: Bearer <token>'`}</Code>
       </section>
 
-      <SystemsApiDocs Code={Code} />
+      <SystemsApiDocs Code={Code} pageRows={pageSizes.searchResults} judged={searchJudged} />
     </div>
   );
 }

@@ -1,20 +1,16 @@
 import type { Route } from "./+types/api.stripe.webhook";
 import { handleStripeWebhook } from "~/lib/billing";
-import { methodNotAllowed, problem } from "~/lib/shared/problem.server";
+import { problem, refuseMethod } from "~/lib/shared/problem.server";
 
 // POST /api/stripe/webhook — Stripe's (or the local stand-in's) signed events. No session, no
 // CSRF origin check (exempt in csrf.server.ts): the Stripe-Signature header is the credential.
 // The body is read raw, exactly as signed; the middleware caps it at 512 KB.
 export async function action({ request }: Route.ActionArgs) {
-  if (request.method !== "POST") return onlyPost();
+  if (request.method !== "POST") return loader();
   const raw = await request.text();
   const out = await handleStripeWebhook(raw, request.headers.get("stripe-signature"));
   if (out.problem) return problem(out.body as { title: string; status: number });
   return Response.json(out.body, { status: out.status, headers: { "Cache-Control": "no-store" } });
 }
 
-export function loader() {
-  return onlyPost();
-}
-
-const onlyPost = () => methodNotAllowed("POST", "Stripe posts events here.");
+export const loader = refuseMethod("POST", "Stripe posts events here.");

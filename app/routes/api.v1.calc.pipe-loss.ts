@@ -8,6 +8,4 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 // GET / HEAD → 405 problem+json with Allow: POST.
-export function loader({ request }: Route.LoaderArgs) {
-  return calcMethodNotAllowed(request);
-}
+export const loader = calcMethodNotAllowed;

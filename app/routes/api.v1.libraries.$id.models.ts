@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listModels, MODEL_PAGE_ROWS } from "~/lib/libraries";
 import { answerById } from "~/lib/shared/api-errors.server";
-import { methodNotAllowed } from "~/lib/shared/problem.server";
+import { refuseMethod } from "~/lib/shared/problem.server";
 import { QueryId, readQuery } from "~/lib/shared/forms.server";
 import { pageLinks, pageOf } from "~/lib/shared/paging";
 
@@ -29,4 +29,4 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
 }
 
-export const action = () => methodNotAllowed("GET");
+export const action = refuseMethod("GET");

@@ -5,7 +5,7 @@ import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { storeUpload, UploadRejected } from "~/lib/libraries";
 import { AnalysisFailed, analyseForImport } from "~/lib/libraries/upload-analysis.server";
 import { runImport } from "~/lib/libraries/import-run.server";
-import { badRequest, methodNotAllowed, problem } from "~/lib/shared/problem.server";
+import { badRequest, methodNotAllowed, problem, refuseMethod } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { discardUpload, getUploadMeta } from "~/lib/libraries/uploads.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
@@ -73,6 +73,4 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-export function loader() {
-  return problem({ title: "Method Not Allowed", status: 405, detail: "Use POST with multipart/form-data." }, { Allow: "POST" });
-}
+export const loader = refuseMethod("POST", "Use POST with multipart/form-data.");

@@ -2,7 +2,7 @@ import type { Route } from "./+types/api.v1.libraries";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listLibraries } from "~/lib/libraries";
-import { methodNotAllowed } from "~/lib/shared/problem.server";
+import { refuseMethod } from "~/lib/shared/problem.server";
 
 // GET /api/v1/libraries — every library the caller may see; locked ones are listed without curves.
 export async function loader({ request }: Route.LoaderArgs) {
@@ -11,4 +11,4 @@ export async function loader({ request }: Route.LoaderArgs) {
   return Response.json({ libraries: list });
 }
 
-export const action = () => methodNotAllowed("GET");
+export const action = refuseMethod("GET");

@@ -3,7 +3,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { getModel } from "~/lib/libraries";
 import { answerById } from "~/lib/shared/api-errors.server";
-import { methodNotAllowed } from "~/lib/shared/problem.server";
+import { refuseMethod } from "~/lib/shared/problem.server";
 
 // GET /api/v1/models/:id — one model with its curves and points, SI units.
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -20,4 +20,4 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   });
 }
 
-export const action = () => methodNotAllowed("GET");
+export const action = refuseMethod("GET");

@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemWorkbench } from "~/lib/projects";
 import { SystemInputSchema } from "~/lib/projects/hydraulics";
-import { badRequest, methodNotAllowed, notFound } from "~/lib/shared/problem.server";
+import { badRequest, methodNotAllowed, notFound, refuseMethod } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
@@ -37,9 +37,4 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-export function loader() {
-  return new Response(JSON.stringify({ type: "about:blank", title: "Method Not Allowed", status: 405, detail: "Use POST." }), {
-    status: 405,
-    headers: { "Content-Type": "application/problem+json", Allow: "POST" },
-  });
-}
+export const loader = refuseMethod("POST", "Use POST.");

@@ -2,7 +2,7 @@ import type { Route } from "./+types/api.v1.systems.$id";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { renderDeep } from "~/lib/shared/units";
-import { problem } from "~/lib/shared/problem.server";
+import { refuseMethod } from "~/lib/shared/problem.server";
 import { answerById } from "~/lib/shared/api-errors.server";
 import { systemReadView } from "~/lib/projects";
 
@@ -13,6 +13,4 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return answerById(params.id, "System", async (id) => renderDeep(await systemReadView(viewerOfApi(c), id), c.units), c.units);
 }
 
-export function action() {
-  return problem({ title: "Method Not Allowed", status: 405, detail: "Use GET." }, { Allow: "GET" });
-}
+export const action = refuseMethod("GET", "Use GET.");

@@ -190,6 +190,6 @@ describe("GET /api/v1/libraries/:id/models a page at a time (the library page's 
   });
 
   test("the /api page states the page size the route answers with", async () => {
-    expect(apiDocs.loader().modelPageRows).toBe((await api()).paging.pageSize);
+    expect(apiDocs.loader().pageSizes.models).toBe((await api()).paging.pageSize);
   });
 });

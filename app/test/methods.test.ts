@@ -120,3 +120,21 @@ test("handleError (entry.server.tsx): React Router's own 405s are not logged; ev
   handleError(new Error("late"), { request: new Request("http://127.0.0.1:3999/", { signal: gone.signal }), params: {}, context: {} } as never);
   expect(logged).toHaveBeenCalledTimes(2);
 });
+
+test("every API route says once what it takes: its refusing loader or action is a refuseMethod, whose `allow` app/serve.mjs answers unknown methods with (server-before-router.test.ts)", async () => {
+  const api = flatten(routeConfig as Entry[]).filter((r) => r.path.startsWith("api/") && r.path !== "api/*");
+  expect(api.length).toBeGreaterThanOrEqual(13);
+  const found: string[] = [];
+  for (const r of api) {
+    const mod = modules[`../${r.file}`] as { loader?: { allow?: string }; action?: { allow?: string } };
+    const refusing = [["GET", mod.loader], ["POST", mod.action]].filter(([, f]) => typeof (f as { allow?: unknown })?.allow === "string") as [string, { allow: string }][];
+    // Exactly one of the two refuses, and it names the other's method.
+    expect([r.path, refusing.length], r.path).toEqual([r.path, 1]);
+    const [method, fn] = refusing[0];
+    const answer = await call(fn as never, { path: `/${r.path}`, method, params: { id: "1" }, headers: { origin: "http://127.0.0.1:3999" } });
+    expect([r.path, answer.status, answer.headers.get("allow")]).toEqual([r.path, 405, fn.allow]);
+    found.push(`${r.path}: ${fn.allow}`);
+  }
+  // The API's GET routes and POST routes (app/routes.ts; the /api page documents each).
+  expect(found.filter((f) => f.endsWith(": GET")).length + found.filter((f) => f.endsWith(": POST")).length).toBe(api.length);
+});

@@ -2,7 +2,7 @@
 // per-address rate limit, content type, body size, JSON, then the calculation.
 import { clientIp } from "../auth/session.server";
 import { requireApi } from "../auth/guards.server";
-import { problem } from "../shared/problem.server";
+import { problem, refuseMethod } from "../shared/problem.server";
 import { hitRateLimit } from "../shared/ratelimit.server";
 import { runCalc } from "./calculations";
 import { ANON_RATE_LIMIT, BODY_FIELD, CALC_LIMITS, MAX_ERRORS, type CalcEndpoint, type CalcOutcome, type FieldError } from "./schemas";
@@ -20,13 +20,8 @@ export function validationProblem(errors: FieldError[], headers?: HeadersInit): 
   return problem({ title: "Bad Request", status: 400, detail, errors: shown }, headers);
 }
 
-/** GET, HEAD and any method other than POST. */
-export function calcMethodNotAllowed(request: Request): Response {
-  return problem(
-    { title: "Method Not Allowed", status: 405, detail: `${request.method} is not supported here: POST a JSON body (see /api).` },
-    { Allow: "POST" },
-  );
-}
+/** GET, HEAD and any method other than POST: a calculator route's loader, and its action's answer to the rest. */
+export const calcMethodNotAllowed = refuseMethod("POST", (method) => `${method} is not supported here: POST a JSON body (see /api).`);
 
 type BodyRead = { ok: true; value: unknown } | { ok: false; response: Response };
 
@@ -87,7 +82,7 @@ function isJsonContentType(value: string | null): boolean {
  * @param opts.now clock for the rate-limit window (tests)
  */
 export async function calcAction(request: Request, endpoint: CalcEndpoint, opts: { now?: Date } = {}): Promise<Response> {
-  if (request.method.toUpperCase() !== "POST") return calcMethodNotAllowed(request);
+  if (request.method.toUpperCase() !== "POST") return calcMethodNotAllowed({ request });
   const headers = new Headers({ "Cache-Control": "no-store" });
   if (request.headers.has("authorization")) {
     try {

@@ -1,6 +1,6 @@
 // Pump libraries: listing through the plan gate (plans.ts), library and revision records, atomic
 // imports of an analysed upload into a new revision, curves for charts and the search.
-import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import { data } from "react-router";
 import type { PoolConnection } from "mariadb";
 import * as v from "valibot";
@@ -14,6 +14,7 @@ import type { Viewer } from "../auth/viewer.server";
 import { accessTo } from "./plans";
 import { UploadRejected } from "./uploads.server";
 import { promiseCache } from "../shared/promise-cache";
+import { pageOf } from "../shared/paging";
 
 /** The libraries `viewer` may see, with their access (one query; shared by the listing and the search). */
 async function visibleLibraries(viewer: Viewer) {
@@ -168,18 +169,51 @@ export type LibraryCurveSet = {
   points: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
 };
 
-/** Curves of a revision (default: current). Refuses locked libraries: listed, never their curves. */
-export async function libraryCurves(viewer: Viewer, libraryId: number, revisionId?: number): Promise<LibraryCurveSet[]> {
+/**
+ * The revision of a library whose curves `viewer` may read: the one asked for, else the current one; null
+ * when the library has none yet. Refuses locked libraries (403: listed, never their curves) and a revision
+ * of another library (404).
+ */
+async function readableRevision(viewer: Viewer, libraryId: number, revisionId?: number): Promise<number | null> {
   const lib = await getLibrary(viewer, libraryId);
   if (lib.access === "locked") throw data("This shared library opens with the Network plan.", { status: 403 });
   const rev = revisionId ?? lib.currentRevisionId;
-  if (!rev) return [];
+  if (!rev) return null;
   const [r] = await db()
     .select({ id: libraryRevisions.id })
     .from(libraryRevisions)
     .where(and(eq(libraryRevisions.id, rev), eq(libraryRevisions.libraryId, lib.id)));
   if (!r) throw data("No such revision of this library.", { status: 404 });
-  return curvesOfRevisions([rev]);
+  return rev;
+}
+
+/** Curves of a revision (default: current), every set with its points. Refuses locked libraries: listed, never their curves. */
+export async function libraryCurves(viewer: Viewer, libraryId: number, revisionId?: number): Promise<LibraryCurveSet[]> {
+  const rev = await readableRevision(viewer, libraryId, revisionId);
+  return rev ? curvesOfRevisions([rev]) : [];
+}
+
+/**
+ * Curve sets a page of GET /api/v1/libraries/:id/curves. Each set comes with its points: the invented
+ * catalogue of app/test/big-library.ts (8 points a set) measures ~0.9 KB of JSON a set (api-paging.test.ts),
+ * so a page is ~90 KB where a 10 000-set library was ~9 MB in one answer; published curves of up to ~30
+ * points stay near 0.3 MB a page. A model has a handful to a dozen sets, so a page holds several whole
+ * models, and a 10 000-set library is read in 100 requests. The models list (no points) keeps 50 models a page.
+ */
+export const CURVE_PAGE_SETS = 100;
+
+/**
+ * One page of a revision's curve sets with their points, in libraryCurves' order (model name, speed,
+ * impeller largest first; id on a tie): only that page's sets and points are read. `revisionId` is the
+ * revision answered (null: the library has none yet, one empty page).
+ */
+export async function libraryCurvesPage(viewer: Viewer, libraryId: number, opts: { revisionId?: number; page?: number | null; pageSize?: number } = {}) {
+  const pageSize = opts.pageSize ?? CURVE_PAGE_SETS;
+  const rev = await readableRevision(viewer, libraryId, opts.revisionId);
+  const [{ total }] = rev ? await db().select({ total: count() }).from(curveSets).where(eq(curveSets.revisionId, rev)) : [{ total: 0 }];
+  const { first, ...paging } = pageOf(total, pageSize, opts.page);
+  const sets = rev && total > 0 ? await loadCurves([rev], { slice: { offset: first, limit: pageSize } }) : [];
+  return { revisionId: rev, paging, curveSets: sets };
 }
 
 /**
@@ -193,16 +227,20 @@ const cachedRevision = (revisionId: number) => revisionCache.get(revisionId, () 
 export async function curvesOfRevisions(revisionIds: number[], curveSetIds?: number[]): Promise<LibraryCurveSet[]> {
   if (revisionIds.length === 0) return [];
   if (!curveSetIds) return (await Promise.all([...new Set(revisionIds)].map(cachedRevision))).flat();
-  return loadCurves(revisionIds, curveSetIds);
+  return loadCurves(revisionIds, { curveSetIds });
 }
 
 /** The curve sets of one model of a revision with their points (read afresh: a few rows, no need to keep the whole revision). */
 export function modelCurves(revisionId: number, modelId: number): Promise<LibraryCurveSet[]> {
-  return loadCurves([revisionId], undefined, modelId);
+  return loadCurves([revisionId], { modelId });
 }
 
-async function loadCurves(revisionIds: number[], curveSetIds?: number[], modelId?: number): Promise<LibraryCurveSet[]> {
-  const sets = await db()
+/** Curve sets with their points, in one order everywhere (id last, so a page of `slice` is stable); `slice`: that part of the order only. */
+async function loadCurves(
+  revisionIds: number[],
+  { curveSetIds, modelId, slice }: { curveSetIds?: number[]; modelId?: number; slice?: { offset: number; limit: number } } = {},
+): Promise<LibraryCurveSet[]> {
+  const query = db()
     .select({ set: curveSets, model: pumpModels })
     .from(curveSets)
     .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
@@ -213,7 +251,8 @@ async function loadCurves(revisionIds: number[], curveSetIds?: number[], modelId
         modelId === undefined ? undefined : eq(curveSets.modelId, modelId),
       ),
     )
-    .orderBy(asc(pumpModels.name), asc(curveSets.speed), desc(curveSets.impellerDiameter));
+    .orderBy(asc(pumpModels.name), asc(curveSets.speed), desc(curveSets.impellerDiameter), asc(curveSets.id));
+  const sets = await (slice ? query.limit(slice.limit).offset(slice.offset) : query);
   if (sets.length === 0) return [];
   const byId = new Map<number, LibraryCurveSet>();
   for (const s of sets) {

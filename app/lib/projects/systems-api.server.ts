@@ -3,7 +3,7 @@
 // services it calls (getSystem → 404 for another workspace's system, 409 for stored inputs that fail the schema).
 import type { Viewer } from "../libraries";
 import { systemWorkbench } from "./projects.server";
-import { searchForSystem, type SearchFilters } from "./search.server";
+import { SEARCH_SHOWN, searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchView } from "./workbench-view";
 import { searchResultView } from "./search-view";
 
@@ -21,10 +21,13 @@ export async function systemReadView(viewer: Viewer, systemId: number) {
   };
 }
 
-/** { system, duty, results } — the duty-point search against the stored duty, one row per result. */
-export async function systemSearchView(viewer: Viewer, systemId: number, filters: SearchFilters = {}) {
+/**
+ * { system, duty, paging, results } — the duty-point search against the stored duty, one row per result,
+ * SEARCH_SHOWN a page (`page` 1..; not a whole number from 1 or none: the first; past the last: the last).
+ */
+export async function systemSearchView(viewer: Viewer, systemId: number, filters: SearchFilters = {}, page?: number | null) {
   // Each result carries its model id and library: nothing here reads the catalogue again.
-  const res = await searchForSystem(viewer, systemId, filters);
+  const res = await searchForSystem(viewer, systemId, filters, { page: page ?? 1, pageSize: SEARCH_SHOWN });
   return {
     units: SI_UNITS,
     system: { id: res.system.id, name: res.system.name, projectId: res.system.projectId, projectName: res.system.projectName },
@@ -33,6 +36,7 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     stats: res.stats,
     /** Curve sets the engine left out of the search (their points break its rules), with the first reasons. */
     leftOut: res.leftOut,
+    paging: res.paging,
     results: res.results.map(searchResultView),
   };
 }

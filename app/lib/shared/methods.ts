@@ -3,7 +3,8 @@
 // HEAD (PUT, PATCH and DELETE as if they were POST), and answers a POST to a route without an action,
 // OPTIONS and the WebDAV-style rest with a 405 it logs with a stack. A plain HTML form can only GET or
 // POST, and nothing of ours sends anything else to these routes. API routes (/api/…) answer wrong
-// methods themselves (methodNotAllowed in problem.server.ts, app/test/methods.test.ts).
+// methods themselves (refuseMethod in problem.server.ts, app/test/methods.test.ts). Methods React Router
+// does not take at all (PROPFIND, TRACE…) are answered before it by app/serve.mjs (unknownMethodAnswer below).
 //
 // Keys are React Router's route patterns (the paths of app/routes.ts). app/test/route-walk.test.ts
 // checks this table against the route modules: a page without an action, or a resource route that
@@ -66,8 +67,32 @@ export function methodVerdict(method: string, pattern: string | undefined): { ve
   return { verdict: allow.includes(m) ? "pass" : "refuse", allow };
 }
 
-type RouteEntry = { id: string; parentId?: string; path?: string; index?: boolean; caseSensitive?: boolean };
+/** A route of React Router's manifest: the server build's carries the route module (`module`), the browser's its file name. */
+type RouteEntry = { id: string; parentId?: string; path?: string; index?: boolean; caseSensitive?: boolean; module?: unknown };
 type Tree = { id: string; path?: string; index?: boolean; caseSensitive?: boolean; children?: Tree[] };
+
+/**
+ * The routes React Router matches for a path, outermost first, from the build's route manifest (undefined: none).
+ * A segment that is no UTF-8 once decoded (%FF) matches as a placeholder: it can only ever fill a parameter, and
+ * matchRoutes would warn on the console about it (a line in the log for anyone who sends one).
+ */
+function matchesOf(routes: Record<string, RouteEntry | undefined>, rawPathname: string) {
+  const pathname = rawPathname
+    .split("/")
+    .map((s) => {
+      try {
+        decodeURIComponent(s);
+        return s;
+      } catch {
+        return "_";
+      }
+    })
+    .join("/");
+  const all = Object.values(routes).filter((r): r is RouteEntry => Boolean(r));
+  const tree = (parentId: string | undefined): Tree[] =>
+    all.filter((r) => r.parentId === parentId).map((r) => ({ id: r.id, path: r.path, index: r.index, caseSensitive: r.caseSensitive, ...(r.index ? {} : { children: tree(r.id) }) }) as Tree);
+  return matchRoutes(tree(undefined) as Parameters<typeof matchRoutes>[0], pathname) ?? undefined;
+}
 
 /**
  * React Router's pattern for a path (the paths of its matched routes joined), from the build's route
@@ -75,9 +100,37 @@ type Tree = { id: string; path?: string; index?: boolean; caseSensitive?: boolea
  * PROPFIND and the like), whose Allow app/entry.server.tsx adds from this table.
  */
 export function patternOf(routes: Record<string, RouteEntry | undefined>, pathname: string): string | undefined {
-  const all = Object.values(routes).filter((r): r is RouteEntry => Boolean(r));
-  const tree = (parentId: string | undefined): Tree[] =>
-    all.filter((r) => r.parentId === parentId).map((r) => ({ id: r.id, path: r.path, index: r.index, caseSensitive: r.caseSensitive, ...(r.index ? {} : { children: tree(r.id) }) }) as Tree);
-  const matches = matchRoutes(tree(undefined) as Parameters<typeof matchRoutes>[0], pathname);
-  return matches ? matches.map((m) => m.route.path).filter(Boolean).join("/") : undefined;
+  return matchesOf(routes, pathname)
+    ?.map((m) => m.route.path)
+    .filter(Boolean)
+    .join("/");
+}
+
+/**
+ * The methods React Router takes at all (its own list, plus OPTIONS, which it answers on resource routes).
+ * Any other (PROPFIND, MKCOL, TRACE, LOCK…) it refuses before any middleware runs: on a resource route with
+ * {"message":"Unexpected Server Error"} and no Allow, a stack in the log each time.
+ */
+export const ROUTER_METHODS: ReadonlySet<string> = new Set(["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"]);
+
+/** What app/serve.mjs answers, before React Router, to a method outside ROUTER_METHODS. */
+export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string };
+
+/**
+ * The answer to a method React Router does not take (null for one it does), with the route's own Allow:
+ * outside /api/ from the table above; on an API route the `allow` its refusing export carries
+ * (`refuseMethod` in problem.server.ts: the route's one statement of what it takes); an /api/ path no
+ * route serves is a 404, as the API's not-found route answers every method. `routes` is the build's
+ * route manifest (app/serve.mjs hands it over); a `.data` path is matched as its page, as React Router does.
+ */
+export function unknownMethodAnswer(routes: Record<string, RouteEntry | undefined>, method: string, pathname: string): UnknownMethodAnswer | null {
+  const m = method.toUpperCase();
+  if (ROUTER_METHODS.has(m)) return null;
+  const path = pathname === "/_root.data" ? "/" : pathname.replace(/\.data$/, "");
+  const matches = matchesOf(routes, path);
+  const refuse = (allow: string) => ({ status: 405 as const, allow, detail: `${m} is not taken here: use ${allow.split(", ").join(" or ")}.` });
+  if (!path.startsWith("/api/")) return refuse(allowedMethods(matches?.map((x) => x.route.path).filter(Boolean).join("/")).join(", "));
+  const leaf = routes[matches?.at(-1)?.route.id ?? ""]?.module as { loader?: { allow?: unknown }; action?: { allow?: unknown } } | undefined;
+  const allow = [leaf?.loader?.allow, leaf?.action?.allow].find((a): a is string => typeof a === "string");
+  return allow ? refuse(allow) : { status: 404, detail: "No API route at this path." };
 }

@@ -23,3 +23,19 @@ export const methodNotAllowed = (allow: string | readonly string[], detail?: str
   const list = typeof allow === "string" ? allow : allow.join(", ");
   return problem({ title: "Method Not Allowed", status: 405, detail: detail ?? `Use ${list} here.` }, { Allow: list });
 };
+
+/** An API route's loader or action that takes no method: 405 with Allow, the methods the route takes kept on it as `allow`. */
+export type MethodRefusal = ((args?: { request?: Request }) => Response) & { readonly allow: string };
+
+/**
+ * The export of an API route that refuses (`export const action = refuseMethod("GET")`: the route takes GET;
+ * a POST-only route's loader: `refuseMethod("POST")`). The route's own Allow is kept on the function, so the
+ * methods React Router refuses before any route runs (PROPFIND, MKCOL, TRACE…) are answered with the same
+ * Allow by app/serve.mjs (unknownMethodAnswer in lib/shared/methods.ts reads it from the build's route modules): one
+ * place says what an API route takes. `detail` may be written from the method asked.
+ */
+export function refuseMethod(allow: string | readonly string[], detail?: string | ((method: string) => string)): MethodRefusal {
+  const list = typeof allow === "string" ? allow : allow.join(", ");
+  const refuse = (args?: { request?: Request }) => methodNotAllowed(list, typeof detail === "function" ? detail(args?.request?.method ?? "") : detail);
+  return Object.assign(refuse, { allow: list });
+}

@@ -1,0 +1,179 @@
+// What the production server (app/serve.mjs on the build) answers before React Router, where React Router
+// would answer first and log (found by sending them to the running app, 2026-12-03):
+//  - methods React Router does not take (PROPFIND, MKCOL, TRACE, LOCK…) on resource routes came back 405 with
+//    {"message":"Unexpected Server Error"} and no Allow; now 405 with the route's Allow (problem+json under /api/,
+//    text elsewhere), an /api/ path no route serves 404, and TRACE echoes nothing;
+//  - a POST with a foreign Origin to a page or its `.data` came back 400 from React Router's own origin check with
+//    two stacks in the log per request; now our CSRF check (lib/auth/csrf.server.ts) answers 403 first, log quiet.
+// Expected values: RFC 9110 (§15.5.6: a 405 names the methods the resource takes in Allow; §9.3.8: TRACE
+// reflects the request, so a server that does not serve it must echo nothing), each route's own 405 (its Allow,
+// asked with a method it refuses) and the method table (lib/shared/methods.ts).
+import http from "node:http";
+import net from "node:net";
+import { spawn, type ChildProcess } from "node:child_process";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
+import { allowedMethods } from "~/lib/shared/methods";
+import { freePort, makeMember } from "./harness";
+
+const ROOT = path.resolve(__dirname, "../..");
+const built = existsSync(path.join(ROOT, "build/server/index.js"));
+
+let app: ChildProcess | null = null;
+let port = 0;
+let base = "";
+let cookie = "";
+let token = "";
+/** What the app wrote to stderr (React Router logs request errors there). */
+let appErr = "";
+
+beforeAll(async () => {
+  if (!built) return;
+  const m = await makeMember("admin");
+  cookie = m.cookie;
+  token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "early", scope: "read" })).token;
+  port = await freePort();
+  base = `http://127.0.0.1:${port}`;
+  app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+    cwd: ROOT,
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "" },
+    stdio: ["ignore", "ignore", "pipe"],
+  });
+  app.stderr?.on("data", (b) => (appErr += b));
+  const until = Date.now() + 20_000;
+  while (Date.now() < until) {
+    if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error("the app did not start");
+}, 30_000);
+afterAll(() => {
+  app?.kill("SIGTERM");
+  return closeDb();
+});
+
+type Answer = { status: number; headers: http.IncomingHttpHeaders; body: string };
+/** Any method (fetch refuses TRACE), with the session cookie, a token and a canary header that must never come back. */
+function send(method: string, p: string, headers: Record<string, string> = {}, body?: string): Promise<Answer> {
+  return new Promise((resolve, reject) => {
+    // Content-Length given: Node's client sends a TRACE body unframed otherwise.
+    const length = body === undefined ? {} : { "content-length": String(Buffer.byteLength(body)) };
+    const req = http.request({ host: "127.0.0.1", port, path: p, method, headers: { cookie, "x-canary": "canary-4711", ...length, ...headers } }, (res) => {
+      let text = "";
+      res.on("data", (b) => (text += b));
+      res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: text }));
+    });
+    req.on("error", reject);
+    req.end(body);
+  });
+}
+
+/** Lets the app's log reach us: one more round trip, then a moment for the pipe. */
+async function quietSince(from: number) {
+  await fetch(`${base}/livez`);
+  await new Promise((r) => setTimeout(r, 200));
+  return appErr.slice(from);
+}
+
+describe.skipIf(!built)("methods React Router does not take, answered before it", () => {
+  // path, the route's pattern in app/routes.ts, a method the route itself refuses (its own 405 says what it takes)
+  const API: [string, string][] = [
+    ["/api/v1/me", "POST"],
+    ["/api/v1/libraries/1/curves", "POST"],
+    ["/api/v1/systems/1/search", "POST"],
+    ["/api/v1/libraries/1/upload", "GET"],
+    ["/api/v1/systems/1/preview", "GET"],
+    ["/api/v1/calc/pipe-loss", "GET"],
+    ["/api/stripe/webhook", "GET"],
+  ];
+  const PAGES: [string, string][] = [
+    ["/signout", "signout"],
+    ["/livez", "livez"],
+    ["/libraries/1/export.csv", "libraries/:id/export.csv"],
+    ["/selections/1/export.json", "selections/:id/export.json"],
+    ["/field/selections/1/checks", "field/selections/:id/checks"],
+    ["/projects/%FF", "projects/:id"], // no UTF-8 once decoded: matched without a warning in the log
+    ["/signin.data", "signin"],
+  ];
+
+  test("on API routes: 405 problem+json with the Allow the route gives for a method it refuses itself; an /api/ path no route serves: 404", async () => {
+    const from = appErr.length;
+    for (const [p, wrong] of API) {
+      const own = await send(wrong, p, { authorization: `Bearer ${token}`, origin: base, "content-type": "application/json" }, wrong === "GET" ? undefined : "{}");
+      expect([p, own.status], "the route's own refusal").toEqual([p, 405]);
+      for (const method of ["PROPFIND", "MKCOL", "TRACE", "LOCK"]) {
+        const r = await send(method, p, { authorization: `Bearer ${token}` });
+        expect([method, p, r.status, r.headers.allow, r.headers["content-type"]]).toEqual([method, p, 405, own.headers.allow, "application/problem+json"]);
+        expect(JSON.parse(r.body)).toMatchObject({ title: "Method Not Allowed", status: 405 });
+        expect(r.body).not.toContain("Unexpected Server Error");
+      }
+    }
+    const none = await send("PROPFIND", "/api/no/such/route");
+    expect([none.status, none.headers["content-type"], JSON.parse(none.body).detail]).toEqual([404, "application/problem+json", "No API route at this path."]);
+    expect(await quietSince(from)).toBe("");
+  });
+
+  test("outside /api/: 405 as text with Allow from the method table (lib/shared/methods.ts)", async () => {
+    const from = appErr.length;
+    for (const [p, pattern] of PAGES) {
+      for (const method of ["PROPFIND", "MKCOL", "TRACE", "UNLOCK"]) {
+        const r = await send(method, p);
+        expect([method, p, r.status, r.headers.allow]).toEqual([method, p, 405, allowedMethods(pattern).join(", ")]);
+        expect(r.headers["content-type"]).toBe("text/plain; charset=utf-8");
+        expect(r.body).toBe(`${method} is not taken here: use ${allowedMethods(pattern).join(" or ")}.`);
+      }
+    }
+    expect(await quietSince(from)).toBe("");
+  });
+
+  test("TRACE echoes nothing of the request (no header, cookie, token, path or body), nor does any other refusal", async () => {
+    for (const p of ["/api/v1/me", "/signout", "/"]) {
+      const r = await send("TRACE", `${p}?q=path-canary`, { authorization: `Bearer ${token}`, "content-type": "text/plain" }, "body-canary");
+      expect(r.status, p).toBe(405);
+      const all = JSON.stringify(r.headers) + r.body;
+      for (const secret of ["canary-4711", "path-canary", "body-canary", token, cookie.split("=")[1].split(";")[0]]) expect(all, `${p}: ${secret.slice(0, 12)}`).not.toContain(secret);
+    }
+  });
+
+  test("a method Node's HTTP parser does not know (BREW) is refused by Node itself: 400, the connection closed, nothing echoed or logged", async () => {
+    const from = appErr.length;
+    const reply = await new Promise<string>((resolve, reject) => {
+      const s = net.connect(port, "127.0.0.1", () => s.write(`BREW /api/v1/me HTTP/1.1\r\nHost: 127.0.0.1\r\nX-Canary: canary-4711\r\n\r\n`));
+      let text = "";
+      s.on("data", (b) => (text += b));
+      s.on("end", () => resolve(text));
+      s.on("error", reject);
+    });
+    expect(reply).toMatch(/^HTTP\/1\.1 400 Bad Request\r\n/);
+    expect(reply).not.toContain("canary-4711");
+    expect(await quietSince(from)).toBe("");
+  });
+});
+
+describe.skipIf(!built)("cross-site writes refused by our own check before React Router's", () => {
+  test("a POST with a foreign Origin to a page or its .data: 403 from our CSRF check, and nothing in the server's log", async () => {
+    const from = appErr.length;
+    const form = { "content-type": "application/x-www-form-urlencoded" };
+    for (const p of ["/signin", "/signin.data", "/projects", "/projects.data", "/workspace", "/workspace.data", "/libraries/1", "/_root.data"]) {
+      for (const origin of ["http://evil.example", "null", "not a url", `${base}.evil.example`]) {
+        const r = await send("POST", p, { ...form, origin }, "intent=delete&name=x");
+        expect([p, origin, r.status]).toEqual([p, origin, 403]);
+        expect(r.body).toMatch(/^Cross-site request refused/);
+      }
+    }
+    expect(await quietSince(from)).toBe("");
+  });
+
+  test("the same check on resource and API routes (problem+json under /api/); our own origin and APP_URL still pass; no Origin with a session cookie is still refused", async () => {
+    const form = { "content-type": "application/x-www-form-urlencoded" };
+    const api = await send("POST", "/api/v1/systems/1/preview", { "content-type": "application/json", origin: "http://evil.example" }, "{}");
+    expect([api.status, api.headers["content-type"], JSON.parse(api.body).title]).toEqual([403, "application/problem+json", "Forbidden"]);
+    expect((await send("POST", "/signout", { ...form, origin: "http://evil.example" }, "")).status).toBe(403);
+    // Past the check: a wrong password is the sign-in form's own 400 (same origin, and the origin APP_URL names).
+    for (const origin of [base, "https://dutymark.example"]) expect((await send("POST", "/signin", { ...form, origin, cookie: "" }, "email=nobody%40example.test&password=wrong")).status, origin).toBe(400);
+    expect((await send("POST", "/workspace", form, "intent=rename&name=x")).status).toBe(403); // no Origin, no Sec-Fetch-Site, a cookie
+  });
+});
