@@ -7,7 +7,7 @@ import { curveSets, libraries, libraryRevisions, projects, pumpModels, selection
 import type { LibraryCurveSet, Viewer } from "../libraries";
 import type { Adjustment, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
-import { ownCandidate, ownRow, systemWorkbench } from "./projects.server";
+import { ownCandidate, ownRow, storedAdjustmentRefusal, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
@@ -16,6 +16,8 @@ export const SELECTION_FORMAT = "dutymark-selection/1";
 export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
+  const unreadable = bench.needsReview.find((x) => x.id === c.id);
+  if (unreadable) throw storedAdjustmentRefusal(unreadable); // never frozen as published on one pump in its place
   const cand = bench.candidates.find((x) => x.id === c.id);
   if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
   const [rev] = await db()
