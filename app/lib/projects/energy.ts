@@ -176,6 +176,28 @@ export function candidateEnergy(
   return out;
 }
 
+/** A duty cycle as computed or frozen: its steps and the engine's warnings (frozen before warnings named their step: no `parameter`). */
+type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?: string | null; code?: string | null; message: string }[] };
+
+/** How a step that is not "ok" reads at the step: not met (the pump or the control cannot reach it) or not computed (no data). */
+export function stepVerdict(s: { status: string }): string {
+  if (s.status === "ok") return "";
+  return s.status === "no-power-data" ? "not computed" : "not met";
+}
+
+/** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
+export function stepWarnings(cycle: CycleNotes, i: number): string[] {
+  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => w.message);
+}
+
+/**
+ * The warnings about no single step (those of cycles frozen before warnings named their step included). The
+ * incomplete-cycle warning is left out: the totals say it with their "(incomplete: …)" mark.
+ */
+export function cycleWarnings(cycle: CycleNotes): string[] {
+  return (cycle.warnings ?? []).filter((w) => w.code !== "cycle-incomplete" && !/^profile\[\d+\]$/.test(w.parameter ?? "")).map((w) => w.message);
+}
+
 /**
  * A typed purchase price → integer cents (null: blank, which clears it), through the forms' strict reader
  * (shared/decimal.ts: 1,500 is refused as ambiguous; thousands may be grouped only by spaces, 2 450,50).
