@@ -4,6 +4,7 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "~/lib/shared/units";
+import { bepPositionText, npshMarginText, npshPairText } from "./candidate-figures";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
@@ -156,16 +157,16 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
       return (
         <span title={n?.rule}>
-          {range(c.result?.band, (b) => b.npshMarginRatio, (x) => fmtNum(x, 2))}
-          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — lowest {fmtNum(n.marginRatio, 2)} at {n.at} ({n.status})</span> : null}
+          {range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
+          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — lowest {npshMarginText(n.marginRatio, n.requiredMargin)} at {n.at} ({n.status})</span> : null}
         </span>
       );
     }],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
-    ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? `${fmtNum(c.result.figures.bepRatio * 100, 0)} % of BEP flow${c.result.figures.inPor === false ? " — outside POR" : ""}` : "—")],
-    ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? `${fmtHead(unitSystem, c.result.figures.npshAvailable)} / ${fmtHead(unitSystem, c.result.figures.npshRequired)}` : "—")],
-    ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{fmtNum(c.result.figures.npshMarginRatio, 2)} ({c.result.figures.npshStatus})</span> : "—")],
+    ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
+    ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
+    ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(c.result.figures.npshMarginRatio, c.result.npsh?.requiredMargin)} ({c.result.figures.npshStatus})</span> : "—")],
     ["Largest power on curve", (c) => fmtPower(unitSystem, c.result?.figures?.maxPower)],
     ["Motor", (c) => {
       const f = c.result?.figures;

@@ -14,7 +14,7 @@ import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, 
 import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
-import { qt } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit, qtPair } from "./quantityText.ts";
 
 /** Impeller trim law. */
 export type TrimLaw = "linear" | "square";
@@ -78,14 +78,14 @@ function trimExponents(law: TrimLaw): { q: number; p: number } {
 function trimWarnings(c: PumpCurve, ratio: number): EngineWarning[] {
   const w: EngineWarning[] = [{ code: "trim-approximate", message: "impeller trim scaling is approximate; confirm with the manufacturer's trimmed curve" }];
   if (ratio < 1 - MAX_TRIM_FRACTION) w.push({ code: "large-trim", parameter: "ratio",
-    message: `trim of ${((1 - ratio) * 100).toFixed(1)} % exceeds ${MAX_TRIM_FRACTION * 100} %: prediction unreliable` });
+    message: `trim of ${fmtPctExact(1 - ratio, [MAX_TRIM_FRACTION])} exceeds ${fmtPctLimit(MAX_TRIM_FRACTION)}: prediction unreliable` });
   if (ratio > 1) w.push({ code: "diameter-increase", parameter: "ratio", message: "diameter above the curve's impeller: check the model's maximum" });
   if (c.impellerDiameter !== null) {
     const d = c.impellerDiameter * ratio;
     if (c.minDiameter !== null && d < c.minDiameter * (1 - 1e-9)) w.push({ code: "below-min-diameter", parameter: "ratio",
-      message: `trimmed diameter ${qt("diameter", d)} is below the model's minimum ${qt("diameter", c.minDiameter)}` });
+      message: `trimmed diameter ${qtPair("diameter", d, c.minDiameter).join(" is below the model's minimum ")}` });
     if (c.maxDiameter !== null && d > c.maxDiameter * (1 + 1e-9)) w.push({ code: "above-max-diameter", parameter: "ratio",
-      message: `diameter ${qt("diameter", d)} is above the model's maximum ${qt("diameter", c.maxDiameter)}` });
+      message: `diameter ${qtPair("diameter", d, c.maxDiameter).join(" is above the model's maximum ")}` });
   }
   return w;
 }

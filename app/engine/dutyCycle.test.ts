@@ -104,7 +104,8 @@ describe("a control curve below the system curve: the step is not met", () => {
     expect(r.complete).toBe(false);
     expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
     // 18 × (0.5 + 0.5 × 0.25) = 11.25 m; 12 + 6 × 0.25² = 12.375 m (hand calculation)
-    expect(r.steps[0].message).toMatch(/⟦head\|11\.25⟧ at ⟦flow\|[^⟧]+⟧ but the system needs ⟦head\|12\.375⟧ there, 10\.0 % more/); // 12.375 / 11.25 − 1 = 10 % (hand calculation)
+    // each head's token carries the other (qtPair); 12.375 / 11.25 − 1 = 10 % (hand calculation)
+    expect(r.steps[0].message).toMatch(/⟦head\|11\.25\|12\.375⟧ at ⟦flow\|[^⟧]+⟧ but the system needs ⟦head\|12\.375\|limit:11\.25⟧ there, 10\.0 % more/);
     expect(r.steps[0].message).toMatch(/raise the set point.*system-curve control/);
   });
 
@@ -146,7 +147,7 @@ describe("duty-cycle edges", () => {
     expect(r.complete).toBe(false);
     expect(r.annualEnergyKWh).toBeCloseTo(750, 6); // only the 100 % step (hand calculation above)
     expect(r.warnings.map((w) => w.code)).toContain("cycle-incomplete");
-    expect(r.steps[1].message).toMatch(/gives ⟦head\|15\.5⟧, 61\.7 % below the system's ⟦head\|40\.5⟧/); // 1 − 15.5/40.5 = 61.7 % (hand calculation)
+    expect(r.steps[1].message).toMatch(/gives ⟦head\|15\.5\|40\.5⟧, 61\.7 % below the system.s ⟦head\|40\.5\|limit:15\.5⟧/); // 1 − 15.5/40.5 = 61.7 % (hand calculation); each head token carries the other (qtPair)
     // With the VFD the same step needs more than full speed.
     const v = dutyCycleEnergy({ ...base, mode: "system-curve", driveEfficiency: 0.97, profile: [{ flowFraction: 1.5, hours: 100 }] });
     expect(v.steps[0].status).toBe("beyond-curve");

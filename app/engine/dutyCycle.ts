@@ -39,7 +39,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtPct, fmtPctExact, qt } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, qt, qtPair } from "./quantityText.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -206,7 +206,10 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
       if (hp === null) return none("beyond-curve", `${qt("flow", q)} is outside the pump's curve (${qt("flow", curve.flowMin)}–${qt("flow", curve.flowMax)}) at fixed speed`);
-      if (hp < hSys * (1 - 1e-9)) return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${qt("head", hp)}, ${fmtPctExact(1 - hp / hSys)} below the system's ${qt("head", hSys)}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+      if (hp < hSys * (1 - 1e-9)) {
+        const [gives, system] = qtPair("head", hp, hSys); // never read as equal beside "below"
+        return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+      }
       head = hp;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
@@ -219,8 +222,9 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         const hSys = requireFinite("systemHead", input.systemHead(q));
         if (head < hSys * (1 - 1e-9)) {
           const fix = mode === "proportional-pressure" ? "raise the set point, or use constant-pressure or system-curve control" : "raise the set point or use system-curve control";
-          // The shortfall as a percentage (fmtPctExact): near the crossing both heads may read the same at their rounding.
-          return none("control-below-system", `the control curve gives ${qt("head", head)} at ${qt("flow", q)} but the system needs ${qt("head", hSys)} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
+          // Both heads kept apart at their rounding (qtPair), and the shortfall as a percentage (fmtPctExact).
+          const [gives, needs] = qtPair("head", head, hSys);
+          return none("control-below-system", `the control curve gives ${gives} at ${qt("flow", q)} but the system needs ${needs} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
       const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });

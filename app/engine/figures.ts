@@ -15,7 +15,7 @@ import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
-import { fmtPctExact, qt } from "./quantityText.ts";
+import { fmtNumExact, fmtPctExact, qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -163,7 +163,7 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
 export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null } {
   requirePositive("limit", limit);
   if (!max) return { nonOverloading: null, warning: null };
-  if (max.power > limit) return { nonOverloading: false, warning: `largest power on the curve ${qt("power", max.power)} exceeds motor rating × service factor ${qt("power", limit)}` };
+  if (max.power > limit) return { nonOverloading: false, warning: `largest power on the curve ${qtExact("power", max.power, [limit])} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}` };
   if (!max.toEnd) return { nonOverloading: null, warning: `power is known only up to ${qt("flow", max.upTo)}, not to the curve's end: overload past it is not judged (largest power up to there ${qt("power", max.power)}, motor rating × service factor ${qt("power", limit)})` };
   return { nonOverloading: true, warning: null };
 }
@@ -202,8 +202,9 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     let status: NpshStatus = "unknown";
     if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
     if (available <= 0) status = "cavitation-risk";
-    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${qt("head", available)} is below NPSHr${required !== null ? ` ${qt("head", required)}` : ""}: cavitation risk` });
-    else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${(marginRatio as number).toFixed(2)} is below the required ${requiredMargin}` });
+    // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
+    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${qtExact("head", available, [required])} is below NPSHr${required !== null ? ` ${qtLimit("head", required, [available])}` : ""}: cavitation risk` });
+    else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${fmtNumExact(marginRatio, [1, requiredMargin], 2)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
     npsh = { available, required, marginRatio, requiredMargin, status };
   }

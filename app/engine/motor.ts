@@ -17,7 +17,7 @@
  *   cost = kWh × tariff in the workspace's currency.
  */
 import { EngineInputError, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
-import { qt } from "./quantityText.ts";
+import { qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Standard rated outputs, kW (IEC 60034-1 / IEC 60072-1 series, from memory). */
 export const IEC_MOTOR_RATINGS_KW: readonly number[] = [
@@ -51,6 +51,10 @@ export const IE_EFFICIENCY_TABLE: Record<2 | 4, Record<IeClass, readonly number[
     IE4: [85.7, 87.2, 88.2, 89.5, 90.4, 91.1, 91.9, 92.6, 93.3, 93.9, 94.2, 94.5, 94.9, 95.2, 95.4, 95.7, 96.0, 96.1, 96.3, 96.4, 96.6, 96.7],
   },
 };
+
+const LARGEST_RATING = IEC_MOTOR_RATINGS_KW[IEC_MOTOR_RATINGS_KW.length - 1] * 1000;
+/** The standard rating below one of the series, W (0 below the smallest). */
+const previousRating = (rating: number) => (IEC_MOTOR_RATINGS_KW.filter((r) => r * 1000 < rating * (1 - 1e-9)).pop() ?? 0) * 1000;
 
 /**
  * The smallest standard rating ≥ a power, W (null above the largest in the series).
@@ -90,11 +94,14 @@ export function suggestMotor(input: { dutyPower: number; maxCurvePower: number |
   const rating = nextStandardRating(covers / sf);
   const upTo = input.maxCurvePowerUpTo == null ? null : requirePositive("maxCurvePowerUpTo", input.maxCurvePowerUpTo);
   const reach = upTo === null ? "to its end" : `up to ${qt("flow", upTo)} (power known no further: not checked to the curve's end)`;
+  // The power covered never reads as the rating × service factor that fell short of it (7500.4 W is not "7.50 kW" beside an 11 kW pick).
+  const lower = rating === null ? LARGEST_RATING * sf : previousRating(rating) * sf;
+  const covered = (p: number) => qtExact("power", p, [lower]);
   const what = max !== null && max > duty
-    ? `largest power on the curve ${reach} ${qt("power", max)} (duty ${qt("power", duty)})`
-    : `duty power ${qt("power", duty)}${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
+    ? `largest power on the curve ${reach} ${covered(max)} (duty ${qt("power", duty)})`
+    : `duty power ${covered(duty)}${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
   const basis = rating === null
-    ? `${what} is above the largest standard rating (${qt("power", 1e6)})`
+    ? `${what} is above the largest standard rating (${sf === 1 ? qtLimit("power", LARGEST_RATING, [covers]) : `${qt("power", LARGEST_RATING)} × service factor ${sf} = ${qtLimit("power", lower, [covers])}`})`
     : `${qt("power", rating)} is the smallest standard rating whose rating × service factor ${sf} = ${qt("power", rating * sf)} covers the ${what}`;
   return { rating, covers, serviceFactor: sf, basis, source: MOTOR_RATINGS_SOURCE };
 }

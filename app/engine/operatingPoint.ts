@@ -20,7 +20,7 @@ import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, 
 import { brent } from "./roots.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
-import { qt } from "./quantityText.ts";
+import { qt, qtPair } from "./quantityText.ts";
 
 export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end";
 
@@ -109,16 +109,17 @@ function solveInner(
   const last = { flow: lastQ, pumpHead: evalCubic(c.head, lastQ) as number, systemHead: systemHead(lastQ) };
   const warnings: EngineWarning[] = [...c.warnings];
   if (points.length === 0) {
+    const [pumpFirst, systemFirst] = qtPair("head", first.pumpHead, first.systemHead); // never read as equal beside "below"
     if (gs[0] < 0) {
       return { status: "no-intersection-shutoff-below-static", flow: null, head: null, points, method: null, iterations,
         atFirstPoint: first, atLastPoint: last, warnings,
         message: c.shutoffHead !== null
-          ? `Shutoff head ${qt("head", first.pumpHead)} is below the system head ${qt("head", first.systemHead)} at zero flow: the pump cannot deliver into this system`
-          : `Pump head at its first point (${qt("head", first.pumpHead)}) is below the system head there (${qt("head", first.systemHead)}) and the curves never meet` };
+          ? `Shutoff head ${pumpFirst} is below the system head ${systemFirst} at zero flow: the pump cannot deliver into this system`
+          : `Pump head at its first point (${pumpFirst}) is below the system head there (${systemFirst}) and the curves never meet` };
     }
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `At the last curve point the pump still gives ${qt("head", last.pumpHead)} against ${qt("head", last.systemHead)}: it would run out past the end of its published curve` };
+      message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
   }
   const chosen = roots[roots.length - 1];
   const op = points[points.length - 1];

@@ -4,13 +4,21 @@
  * 0.0111 m³/s; the edges (pages, report, e-mail) render the tokens in the reader's units with
  * {@link renderQuantities} (re-exported as `renderUnits` by `app/lib/shared/units.ts`). Text without
  * tokens renders unchanged, so stored messages written before the tokens still display.
+ * A reading judged against a limit is written with {@link qtExact} and the limit with {@link qtLimit}
+ * (`⟦flow|0.02776|0.027777777777777776⟧`, `⟦flow|0.027777777777777776|limit:0.02776⟧`: each carries the
+ * other), so both get the decimals they need to read apart, in their order, in the unit the reader chose.
  * Display helpers, not part of the engine's public face (index.ts): import this file by path.
  */
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
 
-/** Matches one token: quantity name (letters) and a number as written by {@link qt} (or NaN). */
-export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)⟧/g;
+/**
+ * Matches one token: quantity name (letters), a number as written by {@link qt} (or NaN) and, from
+ * {@link qtExact} or {@link qtLimit}, the SI values it must read apart from (comma-separated; `limit:` first for a limit).
+ */
+export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)(?:\|([^⟦⟧|]*))?⟧/g;
+/** Marks the values of a {@link qtLimit} token. */
+const LIMIT_MARK = "limit:";
 
 /**
  * A quantity token for text: `⟦flow|0.0111⟧`.
@@ -21,15 +29,100 @@ export function qt(quantity: Quantity, si: number): string {
   return `⟦${quantity}|${Number.isFinite(si) ? String(Number(si.toPrecision(6))) : "NaN"}⟧`;
 }
 
+function apartToken(quantity: Quantity, si: number, against: readonly (number | null | undefined)[], mark: string): string {
+  if (!Number.isFinite(si)) return qt(quantity, si);
+  const others = against.filter((a): a is number => a != null && Number.isFinite(a)).map(String);
+  return `⟦${quantity}|${String(si)}${others.length ? `|${mark}${others.join(",")}` : ""}⟧`;
+}
+
+/**
+ * A quantity token for a reading that a text compares with limits: `⟦flow|0.02776|0.027777777777777776⟧`.
+ * Rendered as {@link qt}'s, with more decimals (see {@link fmtNumExact}) while, in the reader's unit, it
+ * would read as one of `against` though it is not: a flow judged short never reads as the duty
+ * ("99.96 m³/h", not "100.0 m³/h"). Write each limit shown beside it with {@link qtLimit}, the reading in
+ * its `against`: both then print at decimals where they differ, so they read in the order of their values.
+ * Values are kept exactly (not to 6 digits), so the render compares what the engine compared.
+ * @param quantity physical quantity of the value and of `against` (unitless id)
+ * @param si the reading in SI (temperature in °C)
+ * @param against the limits it is compared with, in SI (missing or non-finite ones are left out)
+ */
+export function qtExact(quantity: Quantity, si: number, against: readonly (number | null | undefined)[]): string {
+  return apartToken(quantity, si, against, "");
+}
+
+/**
+ * A quantity token for a limit shown beside the readings judged against it: as {@link qtExact}, but the
+ * decimals added to tell it apart are written without trailing zeros (a limit as typed: "100 m³/h" beside
+ * 99.96 m³/h, "440.3 gpm" beside 440.1 gpm).
+ * @param quantity physical quantity of the limit and of `readings` (unitless id)
+ * @param si the limit in SI (temperature in °C)
+ * @param readings the readings judged against it, in SI (missing or non-finite ones are left out)
+ */
+export function qtLimit(quantity: Quantity, si: number, readings: readonly (number | null | undefined)[]): string {
+  return apartToken(quantity, si, readings, LIMIT_MARK);
+}
+
+/**
+ * A reading and the limit it is judged against, as {@link qtExact} and {@link qtLimit} tokens of each other.
+ * @param quantity physical quantity of both (unitless id)
+ * @param reading the reading in SI
+ * @param limit the limit in SI
+ */
+export function qtPair(quantity: Quantity, reading: number, limit: number): [string, string] {
+  return [qtExact(quantity, reading, [limit]), qtLimit(quantity, limit, [reading])];
+}
+
+/** Decimals of the magnitude rule (≥100: 0, ≥10: 1, ≥1: 2, else 3). */
+const decimalsFor = (x: number) => (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
+/** Decimals are added to tell a value from its limits until it shows this many significant digits (count; 1 part in 10⁹). */
+const MAX_SIGNIFICANT = 9;
+/** The most decimals that show a value and its limits to MAX_SIGNIFICANT digits (count). */
+const maxDecimals = (base: number, values: readonly number[]) => {
+  const m = Math.max(...values.map(Math.abs));
+  return m > 0 ? Math.min(20, Math.max(base, MAX_SIGNIFICANT - 1 - Math.floor(Math.log10(m)))) : base;
+};
+/** Significant digits of a non-zero value too small for its decimals (count). */
+const TINY_SIGNIFICANT = 3;
+/** "-0.000" reads as zero: drop the sign of a rounded zero. */
+const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
+
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
+ * A non-zero number those decimals would show as zero gets 3 significant digits instead (4e-7 → "4.00e-7",
+ * 0.0004 → "0.000400", not "0.000"); a rounded zero never carries a minus sign ("-0.000" → "0.000").
  * @param x the number, in any unit
- * @param digits decimals wanted instead (count)
+ * @param digits decimals wanted instead (count; then a small number may read as zero, but unsigned)
  */
 export function fmtNum(x: number | null | undefined, digits?: number): string {
   if (x == null || !Number.isFinite(x)) return "—";
-  const d = digits ?? (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
-  return x.toFixed(d);
+  const t = x.toFixed(digits ?? decimalsFor(x));
+  if (digits === undefined && x !== 0 && Number(t) === 0) return x.toPrecision(TINY_SIGNIFICANT);
+  return unsignedZero(t);
+}
+
+/**
+ * A number in a text that compares it with others (a reading with its limits, or a limit with its
+ * readings): as {@link fmtNum}, with more decimals (up to 9 significant digits) while it would read the same as one of
+ * `against`, or as zero, though it is not ("1.0996" beside a required 1.1, not "1.10"). Two numbers
+ * printed this way, each with the other in `against`, read in the order of their values. A limit
+ * (`limit`) drops the trailing zeros of the decimals added only for this ("100" beside 99.96, not "100.00").
+ * @param x the number, in any unit
+ * @param against the numbers it is compared with, in the same unit
+ * @param digits decimals at the least (count; default the magnitude rule)
+ * @param limit whether x is the limit (true) or the reading (false, default) (unitless)
+ */
+export function fmtNumExact(x: number | null | undefined, against: readonly (number | null | undefined)[] = [], digits?: number, limit = false): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  const base = digits ?? decimalsFor(x);
+  const others = [0, ...against].filter((a): a is number => a != null && Number.isFinite(a) && a !== x);
+  const shown = (v: number, d: number) => Number(v.toFixed(d)); // -0 and 0 read the same
+  const most = maxDecimals(base, [x, ...others]);
+  let d = base;
+  while (d < most && others.some((a) => shown(a, d) === shown(x, d))) d++;
+  if (d === base) return fmtNum(x, digits);
+  if (shown(x, d) === 0) return fmtNum(x); // still reads as zero: significant digits
+  const t = x.toFixed(d);
+  return unsignedZero(limit ? t.replace(/0+$/, (zeros) => zeros.slice(d - base)).replace(/\.$/, "") : t);
 }
 
 /**
@@ -79,24 +172,43 @@ export function fmtQuantity(units: UnitPreset, q: Quantity, si: number | null | 
   return `${fmtNum(fromSI(q, unit, si), digits)} ${unitLabel(q, unit)}`;
 }
 
+/**
+ * An SI value compared with others, as text in the unit chosen for its quantity: as {@link fmtQuantity}, with
+ * the decimals {@link fmtNumExact} adds while it would read as one of `against` in that unit, though it is not.
+ * @param units unit id per quantity (unitless ids)
+ * @param q physical quantity of the value and of `against` (unitless id)
+ * @param si the value in SI (temperature in °C)
+ * @param against the values it is compared with, in SI
+ * @param limit whether si is the limit (its added decimals without trailing zeros) or the reading (default) (unitless)
+ */
+export function fmtQuantityExact(units: UnitPreset, q: Quantity, si: number | null | undefined, against: readonly (number | null | undefined)[], limit = false): string {
+  if (si == null || !Number.isFinite(si)) return "—";
+  const unit = units[q];
+  const shown = (v: number) => (v === si ? NaN : fromSI(q, unit, v)); // an equal value is no other value
+  return `${fmtNumExact(fromSI(q, unit, si), against.filter((a): a is number => a != null && Number.isFinite(a)).map(shown), undefined, limit)} ${unitLabel(q, unit)}`;
+}
+
 const isQuantity = (x: string): x is Quantity => Object.prototype.hasOwnProperty.call(UNITS, x);
 
 /**
  * Renders the quantity tokens of a text in the chosen units. A token of an unknown quantity or
- * with a value that is no number stays as written (visible, so a wrong token is noticed); NaN
+ * with a value (or a value to read apart from) that is no number stays as written (visible, so a wrong token is noticed); NaN
  * renders as "—"; text without tokens comes back unchanged.
  * @param text the text with tokens (unitless)
  * @param units unit id per quantity (unitless ids)
  */
 export function renderQuantities(text: string, units: UnitPreset): string {
   if (!text.includes("⟦")) return text;
-  return text.replace(QUANTITY_TOKEN, (whole, q: string, raw: string) => {
+  return text.replace(QUANTITY_TOKEN, (whole, q: string, raw: string, apart: string | undefined) => {
     if (!isQuantity(q)) return whole;
     if (raw === "NaN") return "—";
     const x = raw.trim() === "" ? NaN : Number(raw);
     if (!Number.isFinite(x)) return whole;
+    const limit = apart?.startsWith(LIMIT_MARK) ?? false;
+    const against = apart === undefined ? [] : apart.slice(limit ? LIMIT_MARK.length : 0).split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
+    if (!against.every(Number.isFinite)) return whole;
     try {
-      return fmtQuantity(units, q, x);
+      return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {
       if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written
       throw e;

@@ -4,7 +4,7 @@
  */
 import { EngineInputError, requirePositive, requireNonNegative } from "./errors.ts";
 import type { Candidate } from "./search.ts";
-import { fmtPct, qt } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, qt } from "./quantityText.ts";
 
 /** What a row is, in words (how it meets the duty and its figures). */
 function describe(c: Candidate, reqMargin: number): string {
@@ -13,8 +13,9 @@ function describe(c: Candidate, reqMargin: number): string {
     : c.method === "trim" ? `reaches the duty point trimmed to ${fmtPct(c.ratio)} of its diameter${c.diameter !== null ? ` (${qt("diameter", c.diameter)})` : ""}`
     : `reaches the duty point at ${fmtPct(c.ratio)} speed${c.speed !== null ? ` (${Math.round(c.speed)} rpm)` : ""}`);
   parts.push(c.efficiency !== null ? `${fmtPct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
-  if (c.bepRatio !== null) parts.push(`${Math.round(c.bepRatio * 100)} % of BEP flow${c.inPor ? " (inside POR)" : " (outside POR 70–120 %)"}`);
-  if (c.npshMargin !== null) parts.push(`NPSH margin ${c.npshMargin.toFixed(2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
+  // Beside "outside POR" or "below" the figure never reads as the limit it was judged against.
+  if (c.bepRatio !== null) parts.push(c.inPor ? `${Math.round(c.bepRatio * 100)} % of BEP flow (inside POR)` : `${fmtPctExact(c.bepRatio, [0.7, 1.2], 0)} of BEP flow (outside POR 70–120 %)`);
+  if (c.npshMargin !== null) parts.push(`NPSH margin ${fmtNumExact(c.npshMargin, [1, reqMargin], 2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
   if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
   return parts.join("; ");
 }
@@ -35,7 +36,7 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
     if (Math.abs(d) >= 5) diffs.push(`${qt("power", Math.abs(d))} ${d > 0 ? "more" : "less"} shaft power`);
   }
   if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
-    diffs.push(`NPSH margin ${b.npshMargin.toFixed(2)} against ${a.npshMargin.toFixed(2)}`);
+    diffs.push(`NPSH margin ${fmtNumExact(b.npshMargin, [a.npshMargin], 2)} against ${fmtNumExact(a.npshMargin, [b.npshMargin], 2)}`);
   }
   const score = a.score - b.score;
   return diffs.length

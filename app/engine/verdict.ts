@@ -22,7 +22,7 @@
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
-import { fmtPct, fmtPctExact, fmtPctLimit, qt } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
 import { MAX_TRIM_FRACTION } from "./affinity.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
@@ -112,7 +112,9 @@ export interface Verdict {
 }
 
 // Quantities as tokens (quantityText.ts): the reader's units are chosen where the text is shown.
-const diameterText = (d: number) => `Ø${qt("diameter", d)}`;
+// A diameter judged against a published one and that limit: each with the decimals it needs not to read as the other.
+const diameterText = (d: number, limit: number) => `Ø${qtExact("diameter", d, [limit])}`;
+const limitText = (limit: number, d: number) => `Ø${qtLimit("diameter", limit, [d])}`;
 
 function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {
   if (t === undefined) return DEFAULT_FLOW_TOLERANCE;
@@ -136,9 +138,9 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
     requirePositive("catalogue.diameter", d);
     const lo = c.minDiameter ?? null, hi = c.maxDiameter ?? null;
     if (lo !== null && d < requirePositive("catalogue.minDiameter", lo) * (1 - eps))
-      out.push(`impeller ${diameterText(d)} is below the smallest the model publishes (${diameterText(lo)}): ${fmtPctExact(d / lo, [1])} of it`);
+      out.push(`impeller ${diameterText(d, lo)} is below the smallest the model publishes (${limitText(lo, d)}): ${fmtPctExact(d / lo, [1])} of it`);
     if (hi !== null && d > requirePositive("catalogue.maxDiameter", hi) * (1 + eps))
-      out.push(`impeller ${diameterText(d)} is above the largest the model publishes (${diameterText(hi)}): ${fmtPctExact(d / hi, [1])} of it`);
+      out.push(`impeller ${diameterText(d, hi)} is above the largest the model publishes (${limitText(hi, d)}): ${fmtPctExact(d / hi, [1])} of it`);
   }
   const t = c.trimRatio ?? null;
   if (t !== null) {
@@ -212,13 +214,16 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
   const ratio = q / qd;
   const tolText = `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
   const ratioText = fmtPctExact(ratio, [1 - tol.minus, 1 + tol.plus]);
+  // Beside a short or oversized verdict the flow never reads as the duty or a tolerance limit, nor they as it, in any unit.
+  const flowText = qtExact("flow", q, [lo, hi, qd]);
+  const apart = (limit: number) => qtLimit("flow", limit, [q]);
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
-      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${qt("flow", lo)}`,
-      reasons: [`Delivers ${qt("flow", q)} at ${worst.name} against a duty of ${qt("flow", qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
+      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${apart(lo)}`,
+      reasons: [`Delivers ${flowText} at ${worst.name} against a duty of ${apart(qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
   }
   if (q > hi * (1 + eps)) {
-    const reasons = [`Delivers ${qt("flow", q)} at ${worst.name}, its least flow in the band, against a duty of ${qt("flow", qd)}: ${ratioText} of the duty, above the tolerance ${tolText}.`];
+    const reasons = [`Delivers ${flowText} at ${worst.name}, its least flow in the band, against a duty of ${apart(qd)}: ${ratioText} of the duty, above the tolerance ${tolText}.`];
     const now = input.powerNow ?? null;
     for (const s of input.savings ?? []) {
       if (s.outside?.length) reasons.push(`${cap(s.means)} to the duty (${s.how}) is not an option the maker publishes: the ${s.outside.join("; the ")}.`);
@@ -226,7 +231,7 @@ export function judgeCandidate(input: VerdictInput): Verdict | null {
       else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPct((now - s.power) / now, 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
-      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${qt("flow", hi)}`, reasons };
+      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${apart(hi)}`, reasons };
   }
   return { status: "meets", edge: worst.name,
     rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText})`,

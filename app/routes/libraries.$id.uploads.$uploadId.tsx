@@ -7,9 +7,9 @@ import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/librarie
 import { getUploadMeta } from "~/lib/libraries/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
-import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, NUMERIC_FIELDS, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
+import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, headerUnitRefusal, NUMERIC_FIELDS, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
-import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm } from "~/lib/libraries/mapping-form";
+import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
@@ -206,6 +206,8 @@ export default function UploadPreview() {
           <ListTable head={["Column in the file", "First values", "Means", "Unit", "Curve block"]} className="mt-3">
             {d.mapping.columns.map((c) => {
               const numeric = (NUMERIC_FIELDS as readonly string[]).includes(c.field);
+              // A header naming a unit the field does not take (kPa for head, Hz for speed): no unit is offered, the user picks one.
+              const ask = numeric && unitToChoose(c) ? headerUnitRefusal(c.header, c.field) : null;
               return (
                 <tr key={c.index} className="border-t border-slate-100">
                   <td className="py-1 font-semibold">{c.header || `column ${c.index + 1}`}</td>
@@ -217,13 +219,20 @@ export default function UploadPreview() {
                   </td>
                   <td>
                     {numeric ? (
-                      <select name={`unit.${c.index}`} defaultValue={c.unit ?? ""} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
+                      <select name={`unit.${c.index}`} defaultValue={ask ? "" : (c.unit ?? "")} className="field w-auto py-0.5" aria-label={`Unit of ${c.header}`}>
+                        {ask ? <option value="">choose…</option> : null}
                         <Options values={UNITS_BY_FIELD[c.field as NumericField] as readonly string[]} />
                       </select>
                     ) : (
                       <span className="text-slate-400">—</span>
                     )}
-                    {c.unitSource === "default" ? <span className="ml-1 text-xs text-duty-ink">assumed</span> : null}
+                    {ask ? (
+                      <span className="ml-1 text-xs text-fail" data-testid="unit-not-read">
+                        “{ask.word}” is not a unit the importer reads for {FIELD_LABEL[c.field]}: choose the unit the values are in, or convert the column (see the problems below)
+                      </span>
+                    ) : c.unitSource === "default" ? (
+                      <span className="ml-1 text-xs text-duty-ink">assumed</span>
+                    ) : null}
                   </td>
                   <td className="text-xs">{c.block ? blockLabel(c.block) : ""}</td>
                 </tr>

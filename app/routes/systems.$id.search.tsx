@@ -10,6 +10,7 @@ import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
+import { bepPercentText, npshMarginText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
@@ -58,10 +59,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     name: res.system.name,
     project: { id: res.system.projectId, name: res.system.projectName },
     duty: res.system.input.duty,
+    npshMarginWanted: res.system.input.npshMargin,
     unitSystem: sys,
     message: res.message,
     stats: res.stats,
     hidden: res.hidden,
+    leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
     locked: res.locked.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, visibility: l.visibility })),
     results: res.results.map((r) => ({
@@ -177,6 +180,12 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
       ) : null}
+      {d.stats && d.leftOut.count ? (
+        <p className="text-xs caution" data-testid="search-left-out">
+          {d.leftOut.count} curve set{d.leftOut.count === 1 ? " was" : "s were"} left out of the search: the engine refuses their points ({d.leftOut.examples.join("; ")}
+          {d.leftOut.count > d.leftOut.examples.length ? "; …" : ""}). Import the library's file again to see each problem named.
+        </p>
+      ) : null}
       <section className="panel overflow-x-auto">
         {d.results.length === 0 ? (
           <p className="text-sm text-slate-600">No pump in the libraries open to you meets this duty with these filters.</p>
@@ -222,10 +231,10 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>
                     <td>
-                      {r.bepRatio != null ? `${fmtNum(r.bepRatio * 100, 0)} %` : "—"}
+                      {r.bepRatio != null ? bepPercentText(r.bepRatio, r.inPor) : "—"}
                       {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
                     </td>
-                    <td>{r.npshMargin != null ? fmtNum(r.npshMargin, 2) : "—"}</td>
+                    <td>{r.npshMargin != null ? npshMarginText(r.npshMargin, d.npshMarginWanted) : "—"}</td>
                     <td>{fmtPower(sys, r.shaftPower)}</td>
                     <td className="max-w-md text-xs">{r.reason}</td>
                     <td>

@@ -12,6 +12,7 @@ import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
+import { efficiencyPlausible, risesTooMuch } from "./point-rules";
 
 const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
 
@@ -115,9 +116,10 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   let lastRawTrim = "";
   let curSpeed: number | null = null;
   let curImpeller: number | null = null;
-  let firstHead = 0; // head of the current curve's first point, and the point before
+  let firstHead = 0; // head of the current curve's first point, the lowest head so far (the engine's rule), the flow before
+  let lowest = 0;
   let prevFlow = 0;
-  let prevHead = 0;
+  let best = -1; // best efficiency of the current curve (-1: none given)
   let curPoints = 0;
   let pointRows = 0;
   let lastModel = "";
@@ -199,6 +201,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
 
     if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
       if (cur && curPoints < 3) return null; // too few points
+      if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
       seen.add(key);
@@ -207,6 +210,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       curSpeed = speed;
       curImpeller = impeller;
       curPoints = 0;
+      best = -1;
     }
     for (let t = 8; t <= 10; t++) {
       const ci = colOf[t];
@@ -218,21 +222,26 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       }
     }
     const flow = num[2], head = num[3], eff = num[4], pow = num[5];
-    if (curPoints === 0) firstHead = head;
-    else {
+    // the engine's point rules (point-rules.ts): a zero power or NPSHr, or a zero efficiency at flow, needs a message
+    if (pow === 0 || num[6] === 0 || (eff === 0 && flow > 0)) return null;
+    if (curPoints === 0) {
+      if (!(head > 0)) return null;
+      firstHead = lowest = head;
+    } else {
       if (!(flow > prevFlow)) return null;
-      if (head - prevHead > 0.05 * firstHead + 1e-12) return null;
+      if (risesTooMuch(head, lowest, firstHead)) return null;
+      if (head < lowest) lowest = head;
     }
+    if (eff > best) best = eff; // NaN (no efficiency) is never above
     if (eff === eff && pow === pow && pow > 0 && flow > 0) {
       const eta = (density * G_STANDARD * flow * head) / pow;
       if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
     }
     store.lines[store.add(flow, head, eff, pow, num[6])] = line;
     prevFlow = flow;
-    prevHead = head;
     curPoints++;
   }
-  if (pointRows === 0 || curPoints < 3) return null;
+  if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best))) return null;
   const sets = store.sets.length;
   return packedResult(store, { pointRows, pointsAccepted: store.count, curveSets: sets, curveSetsOk: sets, errors: 0, warnings: 0 });
 }

@@ -1,7 +1,8 @@
 // Hostile and broken input for analyseCsv (pure). The importer must never throw on file content
 // (only a bad *mapping* throws v.ValiError, as documented in index.ts) and must return a report
 // that is well formed: every problem with a row, code, severity and reason; stats that add up;
-// every curve set it marks ok valid under CurveSetSchema (what the service writes).
+// every curve set it marks ok valid under CurveSetSchema (what the service writes) and accepted by the
+// engine's createPumpCurve (what the search and the workbench build from it).
 // Sources: inputs are built here (seeded PRNG) or taken from fixtures/demo (generate.ts).
 import { describe, expect, it } from "vitest";
 import * as v from "valibot";
@@ -9,11 +10,12 @@ import { generateDemo } from "../../../fixtures/demo/generate";
 import { analyseCsv, CurveSetSchema, type AnalyseResult } from "./index";
 import type { ProblemCode } from "./types";
 import { prng } from "../../../fixtures/prng";
+import { expectEngineTakes } from "./test-helpers";
 
 const CODES: ProblemCode[] = [
   "not-a-number", "negative", "zero", "missing-value", "missing-model", "flow-not-increasing", "head-rising", "efficiency-over-100",
   "too-few-points", "duplicate-curve", "duplicate-flow", "no-speed", "no-point-values", "extra-cells", "csv-syntax", "mapping", "header-changed",
-  "run-out", "inconsistent",
+  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible",
 ]; // source: types.ts ProblemCode (hand-copied so a new code is noticed here)
 
 
@@ -37,6 +39,7 @@ function expectWellFormed(a: AnalyseResult, text: string) {
     const r = v.safeParse(CurveSetSchema, c);
     expect(r.success, `${c.key}: ${r.success ? "" : r.issues.map((i) => i.message).join("; ")}`).toBe(true);
   }
+  expectEngineTakes(a.result.curveSets);
   expect(() => JSON.stringify(a)).not.toThrow(); // the report goes to the browser as JSON
 }
 

@@ -17,6 +17,8 @@ import {
   POWER_UNITS,
   SPEED_UNITS,
   guessHeader,
+  headerUnitRefusal,
+  refusalMessage,
   unitAllowed,
   type DiameterUnit,
   type Field,
@@ -120,13 +122,22 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
     };
     if (g.qualifier) col.block = { ...g.qualifier };
     if (g.field === "efficiency" && !g.unitFromHeader) {
-      let max = -Infinity;
+      // Percent when values above 1.5 are at least as many as values in (0, 1] (zeros at shutoff say
+      // nothing): most values decide, not the largest, so one typo (1.6 among fractions) does not read
+      // the whole column in percent. Each curve set's best efficiency is then checked after conversion
+      // (point-rules.ts): a curve written in the other unit is flagged, never imported 100× off.
+      let percent = 0;
+      let fraction = 0;
+      let read = false;
       for (const r of sample) {
         const x = parseNumber(r.cells[index] ?? "", decimalComma);
-        if (!Number.isNaN(x)) max = Math.max(max, x);
+        if (Number.isNaN(x)) continue;
+        read = true;
+        if (x > 1.5) percent++;
+        else if (x > 0 && x <= 1) fraction++;
       }
-      if (max > -Infinity) {
-        col.unit = max > 1.5 ? "%" : "fraction";
+      if (read) {
+        col.unit = percent > 0 && percent >= fraction ? "%" : "fraction";
         col.unitSource = "data";
       }
     }
@@ -155,7 +166,9 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
       seen.set(k, c);
       continue;
     }
-    if (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header)) {
+    // A column whose header unit can be read wins over one whose unit word is refused ("Head (m)" over "Head (kPa)").
+    const readable = headerUnitRefusal(prev.header, prev.field) !== null && headerUnitRefusal(c.header, c.field) === null;
+    if (readable || (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header))) {
       prev.field = "ignore";
       prev.unit = null;
       prev.unitSource = undefined;
@@ -224,6 +237,10 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
     if (c.index >= headers.length) p(`column ${c.index + 1} (“${c.header}”) is mapped to ${c.field} but the file has only ${headers.length} columns`, c.header);
     else if (c.header !== headers[c.index])
       p(`column ${c.index + 1} was saved as “${c.header}” but this file calls it “${headers[c.index]}”: check its field and unit`, headers[c.index], "warning", "header-changed");
+    // A unit word the field does not take (head in kPa, speed in Hz) is an error until the user chooses the unit for this header.
+    const h = headers[c.index] ?? c.header;
+    const refused = c.unitSource !== "user" || h !== c.header ? headerUnitRefusal(h, c.field) : null;
+    if (refused) p(refusalMessage(h, refused), h);
   }
   const used = mapping.columns.filter((c) => c.field !== "ignore" && c.field !== "notes");
   const byKey = new Map<string, MappedColumn[]>();

@@ -5,7 +5,8 @@
  * Accepted (decimal-comma files): 12  12,5  ,5  -3  1.450 (thousands: leading digit 1-9, then .ddd groups)  1.450,25
  *   and, because mixed exports happen, a plain dot decimal like 0.785 or 12.5 that is not a thousands pattern.
  * Spaces, no-break spaces and thin spaces between digits are dropped (1 450 → 1450).
- * Anything else (units inside the cell, "n/a", "12.x") is NaN.
+ * Anything else (units inside the cell, "n/a", "12.x") is NaN, and so is a number too small for a double
+ * (1e-400 would read as 0; the form reader refuses it too): `underflows()` tells the two apart for the message.
  */
 
 import { COMMA_DECIMAL, DOT_DECIMAL } from "../shared/decimal";
@@ -15,8 +16,8 @@ const SPACES = /[\s\u00a0\u202f\u2009]+/g;
 const DOT_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:,\d{3})+(?:\.\d+)?$/;
 const COMMA_THOUSANDS = /^[+-]?[1-9]\d{0,2}(?:\.\d{3})+(?:,\d+)?$/;
 
-export function parseNumber(raw: string, decimalComma: boolean): number {
-  const s = raw.replace(SPACES, "");
+/** The cell's number by the grammar (NaN when it is none), before the range check: 1e-400 reads 0 here. */
+function grammarValue(s: string, decimalComma: boolean): number {
   if (s === "") return Number.NaN;
   if (decimalComma) {
     if (COMMA_THOUSANDS.test(s)) return Number(s.replace(/\./g, "").replace(",", "."));
@@ -29,9 +30,25 @@ export function parseNumber(raw: string, decimalComma: boolean): number {
   return Number.NaN;
 }
 
+/** Read as 0 though its digits are not all zero (1e-400, or 0.000…1 past a double's range): refused, as the form reader refuses it (shared/decimal.ts). */
+const underflowed = (x: number, s: string) => x === 0 && /[1-9]/.test(s.split(/[eE]/)[0]);
+
+export function parseNumber(raw: string, decimalComma: boolean): number {
+  const s = raw.replace(SPACES, "");
+  const x = grammarValue(s, decimalComma);
+  return underflowed(x, s) ? Number.NaN : x;
+}
+
+/** True when the cell is a number by the grammar but too small for a double (it would read as 0): parseNumber gives NaN, and the message says why. */
+export function underflows(raw: string, decimalComma: boolean): boolean {
+  const s = raw.replace(SPACES, "");
+  return underflowed(grammarValue(s, decimalComma), s);
+}
+
 /** True when the cell reads as a number under either convention (used by the sniffer before the convention is known). */
 export function looksNumeric(raw: string): boolean {
-  return !Number.isNaN(parseNumber(raw, false)) || !Number.isNaN(parseNumber(raw, true));
+  const s = raw.replace(SPACES, "");
+  return !Number.isNaN(grammarValue(s, false)) || !Number.isNaN(grammarValue(s, true));
 }
 
 /** A cell like 12,5 or -0,75: digits, one comma, digits, no dot. Evidence for a decimal comma. */

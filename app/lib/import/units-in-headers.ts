@@ -9,7 +9,14 @@
  *   1 ft = 0.3048 m; 1 in = 0.0254 m; 1 US gal = 3.785411784 L (so 1 gpm = 6.30901964e-5 m³/s);
  *   1 UK (imperial) gal = 4.54609 L; 1 lbf = 4.4482216152605 N;
  *   1 hp (550 ft·lbf/s) = 550 × 0.3048 × 4.4482216152605 W = 745.69987158227022 W (SP 811 lists 7.456 999 E+02).
+ * The UK gallon is defined as 4.54609 L exactly by the Weights and Measures Act 1985 (SP 811 lists 4.546 09 E-03 m³).
+ * Metric flow units are exact by the SI's own definitions: 1 L = 1e-3 m³, 1 min = 60 s, 1 h = 3600 s, 1 d = 86 400 s.
+ *
+ * A unit word the field does not take (head in kPa, flow in kg/s, power in PS, speed in Hz) is never
+ * replaced by the default: guessHeader reports it (unit-words.ts holds the words) and checkMapping
+ * makes it a mapping error until the user chooses the column's unit.
  */
+import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -19,7 +26,7 @@ export type NumericField = (typeof NUMERIC_FIELDS)[number];
 export type TextField = (typeof TEXT_FIELDS)[number];
 export type Field = (typeof FIELDS)[number];
 
-export const FLOW_UNITS = ["m3/h", "m3/s", "l/s", "l/min", "gpm", "imp gpm"] as const;
+export const FLOW_UNITS = ["m3/h", "m3/s", "m3/min", "m3/d", "l/s", "l/min", "l/h", "gpm", "imp gpm"] as const;
 export const LENGTH_UNITS = ["m", "ft"] as const;
 export const DIAMETER_UNITS = ["mm", "in", "m"] as const;
 export const EFFICIENCY_UNITS = ["%", "fraction"] as const;
@@ -64,7 +71,17 @@ export const HP = 550 * FT * LBF; // W, 745.69987158227022
 
 /** Multiply a value in `unit` by this to get SI (see file header for targets). */
 export const SI_FACTOR: Record<NumericField, Partial<Record<Unit, number>>> = {
-  flow: { "m3/h": 1 / 3600, "m3/s": 1, "l/s": 1e-3, "l/min": 1e-3 / 60, gpm: US_GALLON / 60, "imp gpm": UK_GALLON / 60 },
+  flow: {
+    "m3/h": 1 / 3600,
+    "m3/s": 1,
+    "m3/min": 1 / 60,
+    "m3/d": 1 / 86400,
+    "l/s": 1e-3,
+    "l/min": 1e-3 / 60,
+    "l/h": 1e-3 / 3600,
+    gpm: US_GALLON / 60,
+    "imp gpm": UK_GALLON / 60,
+  },
   head: { m: 1, ft: FT },
   npshr: { m: 1, ft: FT },
   impeller: { mm: 1e-3, in: INCH, m: 1 },
@@ -123,6 +140,8 @@ export function extractQualifier(norm: string): { qualifier: BlockQualifier | nu
   const num = (s: string) => Number(s.replace(",", "."));
   // "@ 2900", "@2900 rpm", "@250mm", "@ 9.5 in"
   take(new RegExp(`@\\s*(\\d+(?:[.,]\\d+)?)\\s*(${SPEED_WORD}|mm|in\\b|"|m\\b)?`), (m) => {
+    // "@50Hz", "@90%": a frequency or a share of rated speed, neither a speed in rpm nor a diameter (unit-words.ts refuses it)
+    if (!m[2] && /^\s*(?:hz|hertz|%)/.test(rest.slice(m.index! + m[0].length))) return false;
     const value = num(m[1]);
     const unit = m[2];
     if (unit === "mm" || unit === "in" || unit === '"' || unit === "m") {
@@ -161,7 +180,7 @@ const FIELD_RULES: Array<[Exclude<Field, "ignore">, RegExp]> = [
   ["power", /power|\bp[12]\b|\bbhp\b|\bkw\b|\bhp\b|^p\b|\bpwr\b|leistung|puissance/],
   ["speed", /speed|\brpm\b|^n\b|1\/min|min-1|min⁻¹|drehzahl|vitesse/],
   ["impeller", /impeller|diam|\bdia\b|\btrim\b|laufrad|ø|⌀|^d2?\b/],
-  ["flow", /flow|^q\b|\bq\b|capacity|\bvolume|förderstrom|durchfluss|débit|\bgpm\b|m3\/|l\/s|l\/min|\blps\b|\blpm\b|\bcmh\b/],
+  ["flow", /flow|^q\b|\bq\b|capacity|\bvolume|förderstrom|durchfluss|débit|\bgpm\b|\b(?:i|us|uk)gpm\b|gal\s*\/\s*min|m3\/|l\/s|l\/min|l\/h\b|\blps\b|\blpm\b|\blph\b|\bcmh\b/],
   ["head", /head|^h\b|\bh\b|\btdh\b|\blift\b|förderhöhe|hauteur/],
   ["type", /\btype\b|\bcategory\b|bauart/],
   ["size", /\bsize\b|\bdn\b|connection|flange/],
@@ -169,26 +188,41 @@ const FIELD_RULES: Array<[Exclude<Field, "ignore">, RegExp]> = [
   ["model", /model|\bpump\b|\bname\b|series|product|article|\bitem\b|baureihe|modell/],
 ];
 
+/**
+ * Columns that look like a point field but are not the pump's: NPSH available, NPSH margin or ratio
+ * (not the pump's NPSHr) and the efficiency of the motor, the drive or the whole set (not the pump's).
+ * They are left unmapped ("ignore"), as an unknown column is.
+ */
+const NOT_THE_PUMPS: RegExp[] = [
+  /npsh\s*-?\s*a(?![a-z])|npsh.*(?:avail|margin|marge|ratio|reserve|verfüg|vorhanden|dispon|anlage)/,
+  /(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement).*(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b)|(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b).*(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement)/,
+];
+
 export function detectField(norm: string): Field {
+  if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
   for (const [field, re] of FIELD_RULES) if (re.test(norm)) return field;
   return "ignore";
 }
 
-/** Unit written in the (normalised, qualifier-free) header for this field, or null when none is written. */
+/** Unit written in the (normalised, qualifier-free) header for this field, or null when none is written (or a refused word overrides it). */
 export function detectUnit(field: Field, norm: string): Unit | null {
+  if (field !== "ignore" && (NUMERIC_FIELDS as readonly string[]).includes(field) && refusedBefore(field as NumericField, norm)) return null;
   switch (field) {
     case "flow":
       if (/m3\s*\/\s*s(ec)?\b/.test(norm)) return "m3/s";
-      if (/m3\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";
-      if (/\bimp(erial)?\.?\s*gpm|\bigpm\b|\buk\s*gpm/.test(norm)) return "imp gpm";
-      if (/gpm\b|gal\s*\/\s*min/.test(norm)) return "gpm";
+      if (/(?:m3|cu\.?\s*m|cbm)\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";
+      if (/m3\s*\/\s*min\b/.test(norm)) return "m3/min";
+      if (/m3\s*\/\s*(?:d|day)\b/.test(norm)) return "m3/d";
+      // gallons: the US gallon unless the header says imperial, in any word order (the refusal above catches both at once)
+      if (GALLONS_PER_MINUTE.test(norm)) return IMPERIAL_MARK.test(norm) ? "imp gpm" : "gpm";
       if (/\bl\s*\/\s*s(ec)?\b|\blps\b/.test(norm)) return "l/s";
       if (/\bl\s*\/\s*min\b|\blpm\b/.test(norm)) return "l/min";
+      if (/\bl\s*\/\s*h(r|our)?\b|\blph\b/.test(norm)) return "l/h";
       return null;
     case "head":
     case "npshr":
-      if (/\bft\b|\bfeet\b|\bfoot\b|'/.test(norm)) return "ft";
-      if (/\bm\b|\bmeters?\b|\bmetres?\b|\bmwc\b|\bmlc\b/.test(norm)) return "m";
+      if (/\bft\b|\bfeet\b|\bfoot\b|'|\bft\s*h2o\b|\bftwc\b|\bfth2o\b/.test(norm)) return "ft";
+      if (/\bm\b|\bmeters?\b|\bmetres?\b|\bmwc\b|\bmlc\b|\bm\s*h2o\b|\bmh2o\b|\bmws\b|\bmce\b|\bmca\b|\bmfl\b/.test(norm)) return "m";
       return null;
     case "impeller":
       if (/\bmm\b/.test(norm)) return "mm";
@@ -205,10 +239,66 @@ export function detectUnit(field: Field, norm: string): Unit | null {
       if (/\bw\b|\bwatts?\b/.test(norm)) return "W";
       return null;
     case "speed":
-      return "rpm";
+      return tok("rpm|upm|1\\s*/\\s*min|min-1|(?:r|u|tr|rev)\\s*/\\s*min").test(norm) ? "rpm" : null;
     default:
       return null;
   }
+}
+
+/** A unit word in a header that the field does not take: the word as written, and the units the field takes. */
+export interface UnitRefusal {
+  field: NumericField;
+  /** The word as the header writes it ("kPa", "GPM … Imp"). */
+  word: string;
+  accepts: readonly Unit[];
+  why: string | null;
+}
+
+const FIELD_WORD: Record<NumericField, string> = {
+  flow: "flow",
+  head: "head",
+  npshr: "NPSHr",
+  efficiency: "efficiency",
+  power: "power",
+  speed: "speed",
+  impeller: "impeller diameter",
+};
+
+/** The word as the header spells it (the match was made on the lower-case normalised text). */
+function asWritten(header: string, word: string): string {
+  const keep = header.normalize("NFKC").replace(/[\u2011-\u2015\u2212]/g, "-").replace(/\^/g, "").replace(/[[\]{}()_]/g, " ").replace(/\s+/g, " ");
+  const at = keep.toLowerCase().indexOf(word);
+  return at < 0 || keep.length !== keep.toLowerCase().length ? word : keep.slice(at, at + word.length);
+}
+
+function refusal(field: NumericField, header: string, norm: string): UnitRefusal | null {
+  let r: RefusedWord | null = refusedBefore(field, norm);
+  if (!r && detectUnit(field, norm) === null) r = refusedAfter(field, norm);
+  if (!r) return null;
+  const word = r.word.includes(" … ") ? r.word.split(" … ").map((w) => asWritten(header, w)).join(" … ") : asWritten(header, r.word);
+  return { field, word, accepts: UNITS_BY_FIELD[field], why: r.why };
+}
+
+/**
+ * The unit word of `header` that a column mapped to `field` cannot take, or null. checkMapping calls it for
+ * every numeric column whose unit the user has not chosen: a refused word is a mapping error, never a default.
+ */
+export function headerUnitRefusal(header: string, field: Field): UnitRefusal | null {
+  if (!(NUMERIC_FIELDS as readonly string[]).includes(field)) return null;
+  const norm = normaliseHeader(header);
+  const { qualifier, rest } = extractQualifier(norm);
+  const pointField = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr";
+  return refusal(field as NumericField, header, qualifier && pointField ? rest : norm);
+}
+
+/** The mapping error's text: the header, the word found, the units the field takes, and what to do. */
+export function refusalMessage(header: string, r: UnitRefusal): string {
+  return (
+    `“${header}” gives the unit “${r.word}”, which the importer does not read for ${FIELD_WORD[r.field]} (it reads ${r.accepts.join(", ")})` +
+    (r.why ? `: ${r.why}` : "") +
+    `. Convert the column in the file to one of those units, or, if its values are already in one of them, choose that unit for the column` +
+    ` (mapping page: the column's unit; API: unitSource "user").`
+  );
 }
 
 export interface HeaderGuess {
@@ -217,6 +307,8 @@ export interface HeaderGuess {
   /** true when the unit was read from the header text; false when it is a default or left to the data. */
   unitFromHeader: boolean;
   qualifier: BlockQualifier | null;
+  /** A unit word the field does not take: then `unit` is only the field's default and checkMapping reports it. */
+  refused: UnitRefusal | null;
 }
 
 /** Guess field, unit and wide-layout qualifier from one header cell. */
@@ -229,9 +321,10 @@ export function guessHeader(header: string): HeaderGuess {
   const base = q ? rest : norm;
   if (!q) field = detectField(norm);
   if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) {
-    return { field, unit: null, unitFromHeader: false, qualifier: null };
+    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null };
   }
   const nf = field as NumericField;
-  const unit = detectUnit(nf, base);
-  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q };
+  const refused = refusal(nf, header, base);
+  const unit = refused ? null : detectUnit(nf, base);
+  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parseNumber } from "./numbers";
-import { guessHeader, HP, SI_FACTOR, toSI, unitAllowed } from "./units-in-headers";
+import { guessHeader, headerUnitRefusal, HP, refusalMessage, SI_FACTOR, toSI, unitAllowed } from "./units-in-headers";
 import { relClose } from "./test-helpers";
 
 describe("SI factors", () => {
@@ -27,6 +27,11 @@ describe("SI factors", () => {
     expect(Math.abs(toSI("power", "hp", 1) - 745.69987)).toBeLessThan(1e-5); // source: NIST SP 811 / task brief (745.69987 W)
     expect(relClose(HP, 550 * 0.3048 * 4.4482216152605)).toBe(true); // source: NIST SP 811 (hp = 550 ft·lbf/s; lbf = 4.448 221 615 260 5 N)
     expect(toSI("power", "kW", 1.5)).toBe(1500); // source: SI prefixes
+  });
+  it("L/h, m³/min and m³/d: exact by the SI's definitions", () => {
+    expect(relClose(toSI("flow", "l/h", 3600), 1e-3)).toBe(true); // source: SI definitions (1 L = 1e-3 m³, 1 h = 3600 s)
+    expect(relClose(toSI("flow", "m3/min", 60), 1)).toBe(true); // source: SI definitions (1 min = 60 s)
+    expect(relClose(toSI("flow", "m3/d", 86400), 1)).toBe(true); // source: SI definitions (1 d = 86 400 s)
   });
   it("efficiency % → fraction", () => {
     expect(toSI("efficiency", "%", 78)).toBeCloseTo(0.78, 12); // source: definition of percent
@@ -117,5 +122,112 @@ describe("guessHeader — header examples from the task brief", () => {
   });
   it("the unit is still read next to a qualifier", () => {
     expect(guessHeader("Head (n=1450) [ft]").unit).toBe("ft"); // source: hand-written header
+  });
+});
+
+// Header spellings from vendor exports and the importer edge hunt of 2026-12-03: each header's field and either the
+// unit read ("header"), the field's default ("default": no unit word) or the unit word refused (never a default).
+type Expect = "header" | "default" | { refused: string };
+const R = (word: string): Expect => ({ refused: word });
+describe("guessHeader — unit words the field does not take are refused, not defaulted", () => {
+  it.each<[string, string, string | null, Expect | null]>([
+    ["Flow GPM (Imp)", "flow", "imp gpm", "header"], // source: UK Weights and Measures Act 1985 (imperial gallon 4.54609 L); "Imp" after the unit
+    ["Imp. gpm", "flow", "imp gpm", "header"], // source: same, "Imp." before the unit
+    ["gpm (UK)", "flow", "imp gpm", "header"], // source: same, "UK" after the unit
+    ["UK gpm", "flow", "imp gpm", "header"], // source: same
+    ["Flow Igpm", "flow", "imp gpm", "header"], // source: same, one word
+    ["Flow gal (imp)/min", "flow", "imp gpm", "header"], // source: same, marker inside gal/min
+    ["Flow US GPM", "flow", "gpm", "header"], // source: NIST SP 811 B.8 (gallon [U.S.])
+    ["Capacity USGPM", "flow", "gpm", "header"], // source: NIST SP 811 B.8
+    ["Flow (gal/min)", "flow", "gpm", "header"], // source: NIST SP 811 (an unqualified gallon is the US one; importer rule)
+    ["Flow US gpm (Imp)", "flow", "m3/h", R("US … Imp")], // source: US and imperial gallons differ by 20.1 % (NIST SP 811; Act of 1985): refused
+    ["Flow (L/h)", "flow", "l/h", "header"], // source: SI definitions (added unit)
+    ["Q [l/h]", "flow", "l/h", "header"], // source: SI definitions
+    ["Flow (lph)", "flow", "l/h", "header"], // source: common practice (litres per hour)
+    ["Flow m3/min", "flow", "m3/min", "header"], // source: SI definitions (added unit)
+    ["Q m³/min", "flow", "m3/min", "header"], // source: SI definitions
+    ["Flow (m3/d)", "flow", "m3/d", "header"], // source: SI definitions (added unit)
+    ["Flow cu.m/h", "flow", "m3/h", "header"], // source: common practice (cubic metres per hour)
+    ["Flow (cfm)", "flow", "m3/h", R("cfm")], // source: importer rule (no cubic feet)
+    ["Flow ft3/s", "flow", "m3/h", R("ft3/s")], // source: importer rule
+    ["Flow bbl/d", "flow", "m3/h", R("bbl/d")], // source: importer rule
+    ["Flow kg/s", "flow", "m3/h", R("kg/s")], // source: a mass flow needs a density (definition of density)
+    ["Flow t/h", "flow", "m3/h", R("t/h")], // source: same
+    ["Q@60 Hz", "flow", "m3/h", R("60 Hz")], // source: a frequency is not an rpm nor a diameter (was read as Ø60 mm)
+    ["Head (kPa)", "head", "m", R("kPa")], // source: H = Δp/(ρg) needs a density (definition of head)
+    ["Head bar", "head", "m", R("bar")], // source: same
+    ["Head psi", "head", "m", R("psi")], // source: same
+    ["Head (psig)", "head", "m", R("psig")], // source: same
+    ["Head (MPa)", "head", "m", R("MPa")], // source: same
+    ["Head (in)", "head", "m", R("in")], // source: importer rule (head in m or ft only)
+    ["Head (Fuß)", "head", "m", R("Fuß")], // source: importer rule (German "foot" not read as ft)
+    ["Head (mm)", "head", "m", R("mm")], // source: importer rule
+    ["H@50Hz", "head", "m", R("50Hz")], // source: a frequency is not an rpm nor a diameter (was read as Ø50 mm)
+    ["H@90%", "head", "m", R("90%")], // source: a share of rated speed needs the rated speed (was read as Ø90 mm)
+    ["Head [mH2O]", "head", "m", "header"], // source: common practice (metres of water column)
+    ["Head mWC", "head", "m", "header"], // source: same
+    ["Head (m.c.l.)", "head", "m", "header"], // source: common practice (metres of liquid column)
+    ["Head in m", "head", "m", "header"], // source: hand-written ("in" as a word, m given)
+    ["Head'", "head", "ft", "header"], // source: common practice (' for feet)
+    ["NPSHr (kPa)", "npshr", "m", R("kPa")], // source: H = Δp/(ρg) needs a density
+    ["NPSH 3% (m)", "npshr", "m", "header"], // source: ISO 9906 (NPSH3: NPSHr at a 3 % head drop), % is not a unit here
+    ["NPSHr (3%)", "npshr", "m", "default"], // source: same
+    ["NPSHa", "ignore", null, null], // source: NPSH available is the system's, not the pump's NPSHr (definition)
+    ["NPSH available (m)", "ignore", null, null], // source: same
+    ["NPSH margin", "ignore", null, null], // source: NPSHa − NPSHr or NPSHa/NPSHr, not NPSHr (definition)
+    ["NPSHa - NPSHr", "ignore", null, null], // source: same
+    ["Motor efficiency", "ignore", null, null], // source: the motor's efficiency is not the pump's (definition)
+    ["Overall efficiency", "ignore", null, null], // source: pump × motor (× drive) efficiency, not the pump's (definition)
+    ["Wire-to-water eff", "ignore", null, null], // source: same
+    ["Wire-to-water efficiency (%)", "ignore", null, null], // source: same
+    ["Gesamtwirkungsgrad", "ignore", null, null], // source: German "overall efficiency"
+    ["Motorwirkungsgrad", "ignore", null, null], // source: German "motor efficiency"
+    ["Pump eff.", "efficiency", "%", "default"], // source: the pump's own efficiency (unit settled from the data in mapping.ts)
+    ["Hydraulic efficiency %", "efficiency", "%", "header"], // source: hand-written header
+    ["Bowl efficiency", "efficiency", "%", "default"], // source: common practice (vertical turbine pumps: the bowl assembly's efficiency)
+    ["Power (PS)", "power", "kW", R("PS")], // source: NIST SP 811 B.8 (horsepower, metric = 735.4988 W ≠ 745.6999 W)
+    ["Power (CV)", "power", "kW", R("CV")], // source: same
+    ["Power (hp metric)", "power", "kW", R("hp metric")], // source: same, refused even though "hp" is written
+    ["Power [MW]", "power", "kW", R("MW")], // source: importer rule (kW, W, hp only)
+    ["Power (kVA)", "power", "kW", R("kVA")], // source: apparent electrical power is not shaft power (definition)
+    ["Power (HP)", "power", "hp", "header"], // source: NIST SP 811 (hp = 550 ft·lbf/s)
+    ["BHP", "power", "hp", "header"], // source: common practice (brake horsepower)
+    ["Speed (Hz)", "speed", "rpm", R("Hz")], // source: n = 120 f/p less slip needs the poles (induction motor theory)
+    ["Speed %", "speed", "rpm", R("%")], // source: a share of rated speed needs the rated speed
+    ["Speed (rps)", "speed", "rpm", R("rps")], // source: importer rule (rpm only)
+    ["Speed (rpm)", "speed", "rpm", "header"], // source: hand-written header
+    ["n [min⁻¹]", "speed", "rpm", "header"], // source: ISO 80000-3 style (min⁻¹)
+    ["Drehzahl U/min", "speed", "rpm", "header"], // source: German "Umdrehungen pro Minute"
+    ["n", "speed", "rpm", "default"], // source: no unit word: the default, shown as assumed
+    ["Frequency (Hz)", "ignore", null, null], // source: not a field the importer reads
+    ["Impeller (cm)", "impeller", "mm", R("cm")], // source: importer rule (mm, in, m only)
+    ["Dia mm", "impeller", "mm", "header"], // source: hand-written header
+  ])("%s → %s [%s] %j", (header, field, unit, expect_) => {
+    const g = guessHeader(header);
+    expect(g.field).toBe(field); // source: see the row
+    expect(g.unit).toBe(unit); // source: see the row (a refused word leaves only the default, never read as the unit)
+    if (expect_ === null) return expect(g.refused ?? null).toBeNull(); // source: unmapped columns carry no unit
+    if (typeof expect_ === "object") {
+      expect(g.refused?.word).toBe(expect_.refused); // source: see the row (the word as the header writes it)
+      expect(g.unitFromHeader).toBe(false); // source: a refused word is not a unit read from the header
+      expect(headerUnitRefusal(header, g.field)).toEqual(g.refused); // source: checkMapping asks the same question
+    } else {
+      expect(g.refused ?? null).toBeNull(); // source: see the row
+      expect(g.unitFromHeader).toBe(expect_ === "header"); // source: see the row
+    }
+  });
+  it("the refusal text names the header, the word found and every unit the field takes", () => {
+    const text = refusalMessage("Head (kPa)", headerUnitRefusal("Head (kPa)", "head")!);
+    expect(text).toMatch(/^“Head \(kPa\)” gives the unit “kPa”, which the importer does not read for head \(it reads m, ft\): a pressure becomes a head only with the liquid's density/); // source: importer rule (message names header, word, units)
+    const hz = refusalMessage("Speed (Hz)", headerUnitRefusal("Speed (Hz)", "speed")!);
+    expect(hz).toContain("(it reads rpm)"); // source: SPEED_UNITS
+    expect(hz).toContain("50 Hz on 2 poles is 3000 rpm before slip"); // source: n = 120 f/p = 120 × 50 / 2 (induction motor theory)
+    const ps = refusalMessage("Power (PS)", headerUnitRefusal("Power (PS)", "power")!);
+    expect(ps).toContain("735.49875 W"); // source: NIST SP 811 B.8 (horsepower, metric = 75 kgf·m/s = 75 × 9.80665 W)
+  });
+  it("a refusal follows the column's mapped field, not the guess", () => {
+    expect(headerUnitRefusal("Pressure (kPa)", "head")?.word).toBe("kPa"); // source: importer rule (a pressure column mapped to head by hand)
+    expect(headerUnitRefusal("Head (kPa)", "ignore")).toBeNull(); // source: an ignored column has no unit
+    expect(headerUnitRefusal("Head (m)", "head")).toBeNull(); // source: m is a head unit
   });
 });

@@ -1,60 +1,39 @@
 /**
  * Mapped rows → curve sets in SI, with every bad row named (source line, column header, reason).
- * Pure: valibot only.
+ * Pure.
  *
  * Rules (see README.md):
  * - numeric cells must read as numbers (not-a-number) and not be negative (negative);
  *   speed and impeller diameter must be above zero (zero);
  * - flow and head are required on a point row (missing-value); the model is required (missing-model);
  * - efficiency must not exceed 100 % (efficiency-over-100);
+ * - the engine's point rules (point-rules.ts): efficiency above zero where flow is above zero, power and
+ *   NPSHr above zero (zero); a power or NPSHr of 0 at shutoff (zero flow) is left out of its point with
+ *   a warning (zero-dropped), the point kept;
  * - within a curve, in file order: flow must increase (flow-not-increasing; an equal flow is
- *   duplicate-flow), and head may rise from one point to the next by at most 5 % of the curve's
- *   shutoff head (head of its first point) — this lets through the slight droop/hump near shutoff
- *   and rounding in exports, and catches swapped or mistyped values (head-rising);
+ *   duplicate-flow); the first point's head must be above zero (zero, named once: the next point is
+ *   then the first); head may rise above the lowest head before it on the curve by at most 5 % of the
+ *   first point's head — the engine's rule with a tighter tolerance: this lets through the slight
+ *   hump near shutoff and rounding in exports, and catches swapped or mistyped values and rising
+ *   (system-like) curves (head-rising);
+ * - a curve's best efficiency must lie within 5–95 % (efficiency-implausible: a column in fractions read
+ *   as percent, or the reverse); it keeps the curve out under either policy;
  * - a curve needs at least 3 good points (too-few-points);
  * - the same (model, speed, impeller) appearing again after other rows, or from another column
  *   block, is a duplicate (duplicate-curve): the first occurrence is kept, the repeat dropped;
  * - a curve set without speed gets a warning (no-speed).
  * A point with an error is left out of its curve; any error charged to a curve marks it ok: false.
  */
-import * as v from "valibot";
+import type { CurvePoint, CurveSet } from "./curve-schema";
 import type { Cell, LongRow } from "./mapping";
-import { parseNumber } from "./numbers";
+import { parseNumber, underflows } from "./numbers";
+import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
-// ---------- output schemas (exported so the service can re-check before it writes) ----------
-
-const NonNegative = v.pipe(v.number(), v.finite(), v.minValue(0));
-const PositiveOrNull = v.nullable(v.pipe(v.number(), v.finite(), v.gtValue(0)));
-
-export const CurvePointSchema = v.object({
-  flow: NonNegative, // m³/s
-  head: NonNegative, // m
-  efficiency: v.optional(v.pipe(v.number(), v.finite(), v.minValue(0), v.maxValue(1))), // 0..1
-  power: v.optional(NonNegative), // W
-  npshr: v.optional(NonNegative), // m
-});
-
-export const CurveSetSchema = v.pipe(
-  v.object({
-    key: v.string(),
-    model: v.pipe(v.string(), v.trim(), v.nonEmpty()),
-    speed: PositiveOrNull, // rpm
-    impellerDiameter: PositiveOrNull, // m
-    type: v.optional(v.string()),
-    size: v.optional(v.string()),
-    notes: v.optional(v.string()),
-    points: v.pipe(v.array(CurvePointSchema), v.minLength(3)),
-    sourceRows: v.array(v.pipe(v.number(), v.integer(), v.minValue(1))),
-    ok: v.boolean(),
-  }),
-  v.check((c) => c.points.every((p, i) => i === 0 || p.flow > c.points[i - 1].flow), "flow must increase"),
-);
-
-export type CurvePoint = v.InferOutput<typeof CurvePointSchema>;
-export type CurveSet = v.InferOutput<typeof CurveSetSchema>;
+// The output schemas (the service re-checks before it writes) live in curve-schema.ts.
+export { CurvePointSchema, CurveSetSchema, type CurvePoint, type CurveSet } from "./curve-schema";
 
 export interface ValidationStats {
   /** Point rows read (one per row in the long layout, one per row and block in the wide layout). */
@@ -96,6 +75,9 @@ interface Building {
   firstLine: number;
   lastLine: number;
   flowColumn: string;
+  /** The efficiency column's header and unit (for the best-efficiency check), or null without one. */
+  effColumn: string | null;
+  effUnit: Unit | null;
   rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
 }
 
@@ -154,7 +136,9 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         const positive = field === "speed" || field === "impeller";
         const code = Number.isNaN(x) ? "not-a-number" : x < 0 ? "negative" : positive && x === 0 ? "zero" : null;
         if (code) {
-          const what = code === "not-a-number" ? "is not a number" : code === "negative" ? "is negative" : "must be greater than zero";
+          const what = code === "not-a-number"
+            ? underflows(cell.raw, opts.decimalComma) ? "is out of range: too small to be stored (it would read as 0); write 0 if zero is meant" : "is not a number"
+            : code === "negative" ? "is negative" : "must be greater than zero";
           bad(cell.column, code, `${FIELD_LABEL[field]} “${cell.raw.trim()}” ${what}`);
           // Head and power below zero may be a run-out point past zero head: kept aside for the curve check.
           if (code === "negative" && (field === "head" || field === "power" || field === "efficiency")) negatives[field] = x * (SI_FACTOR[field][cell.unit as Unit] ?? NaN);
@@ -202,6 +186,18 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const efficiency = num("efficiency", false);
     const power = num("power", false);
     const npshr = num("npshr", false);
+    // The engine's point rules: efficiency above zero where flow is above zero; power and NPSHr above zero,
+    // except that a 0 at shutoff (zero flow, common in vendor exports) is only left out of the point.
+    const dropped: Array<"power" | "npshr"> = [];
+    if (flow != null) {
+      if (efficiency === 0 && flow > 0)
+        bad(lr.cells.efficiency!.column, "zero", "efficiency is 0 at a flow above zero: a pump that delivers flow has an efficiency above zero — correct the cell, or leave it blank");
+      for (const f of ["power", "npshr"] as const) {
+        if ((f === "power" ? power : npshr) !== 0) continue;
+        if (flow === 0) dropped.push(f);
+        else bad(lr.cells[f]!.column, "zero", `${FIELD_LABEL[f]} is 0 at a flow above zero: it must be above zero — correct the cell, or leave it blank`);
+      }
+    }
 
     // Which curve does this row belong to? When its own key cells are unreadable, charge it to the
     // curve of the row above in the same block, so that curve is not imported silently short of a point.
@@ -233,6 +229,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         firstLine: lr.line,
         lastLine: lr.line,
         flowColumn: lr.cells.flow?.column ?? "flow",
+        effColumn: lr.cells.efficiency?.column ?? null,
+        effUnit: lr.cells.efficiency?.unit ?? null,
         rows: [],
       };
       curves.set(key, b);
@@ -256,8 +254,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
 
     const point: CurvePoint = { flow: flow!, head: head! };
     if (efficiency != null) point.efficiency = efficiency;
-    if (power != null) point.power = power;
-    if (npshr != null) point.npshr = npshr;
+    if (power != null && !dropped.includes("power")) point.power = power;
+    if (npshr != null && !dropped.includes("npshr")) point.npshr = npshr;
+    for (const f of dropped)
+      add(lr.line, lr.cells[f]!.column, "zero-dropped",
+        `${FIELD_LABEL[f]} 0 at shutoff (zero flow) left out: ${f === "power" ? "shaft power" : "NPSHr"} is above zero on a pump curve; the point is kept without it`, key, "warning");
     b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column });
   }
 
@@ -266,7 +267,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   for (const key of order) {
     const b = curves.get(key)!;
     let prev: { line: number; point: CurvePoint; raw?: string } | null = null;
-    let shutoff = 0;
+    let first = 0; // head of the curve's first point, the lowest head so far and its line (the engine's rule)
+    let lowest = 0;
+    let lowestLine = 0;
+    let best = -1; // best efficiency of the accepted points, and its line
+    let bestLine = 0;
     // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
     // a negative head followed by ordinary points is an error as before.
     let tail = b.rows.length;
@@ -290,15 +295,26 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
           add(r.line, r.flowColumn, "flow-not-increasing", `flow is lower than on line ${prev.line}: flow must increase along a curve`, key);
           continue;
         }
-        const rise = p.head - prev.point.head;
-        if (rise > 0.05 * shutoff + 1e-12) {
+        if (risesTooMuch(p.head, lowest, first)) {
           add(r.line, r.headColumn, "head-rising",
-            `head rises by ${qt("head", rise)} from line ${prev.line}, more than 5 % of the shutoff head (${qt("head", shutoff)})`, key);
+            `head rises to ${qt("head", p.head)}, ${qt("head", p.head - lowest)} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): more than ${RISE_FRACTION * 100} % of the first point's head (${qt("head", first)})`, key);
           continue;
         }
-      } else shutoff = p.head;
+      } else if (!(p.head > 0)) {
+        add(r.line, r.headColumn, "zero",
+          `the curve's first point has head ${qt("head", p.head)}: a pump curve starts above zero head; this point is left out (the next one is the first)`, key);
+        continue;
+      } else first = lowest = p.head;
       b.set.points.push(p);
       prev = r;
+      if (p.head <= lowest) {
+        lowest = p.head;
+        lowestLine = r.line;
+      }
+      if (p.efficiency !== undefined && p.efficiency > best) {
+        best = p.efficiency;
+        bestLine = r.line;
+      }
       // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0.
       if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
         const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
@@ -308,6 +324,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
             key, "warning");
       }
     }
+    if (best > 0 && !efficiencyPlausible(best))
+      add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);
     if (b.set.points.length < 3)
       add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
     if (b.set.speed === null)
@@ -317,9 +335,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
 
   const policy = opts.policy ?? "skip-curves";
   // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
-  // fewer than 3 good points (or the later copy of a duplicate, which is never built) is kept out.
+  // fewer than 3 good points, or whose best efficiency is implausible (no point to drop: the column's
+  // unit or values are wrong), is kept out (the later copy of a duplicate is never built).
+  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible";
   const badKeys = new Set(
-    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || p.code === "too-few-points")).map((p) => p.curveKey!),
+    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
   );
   for (const c of curveSets) c.ok = !badKeys.has(c.key);
   problems.sort((a, b) => a.row - b.row);

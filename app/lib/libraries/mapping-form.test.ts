@@ -2,8 +2,8 @@
 // zero and negative defaults, an unknown encoding or policy) and the grid's cell names. Expected
 // values are the product's own rules (mapping-form.ts, MappingSchema), not measurements.
 import { describe, expect, it } from "vitest";
-import { suggestMapping } from "../import";
-import { editsFromForm, encodingFromForm, mappingFromForm } from "./mapping-form";
+import { checkMapping, suggestMapping } from "../import";
+import { editsFromForm, encodingFromForm, mappingFromForm, unitToChoose } from "./mapping-form";
 import { formOf } from "~/test/form-data";
 
 const base = suggestMapping(["Model", "Speed", "Q [m3/h]", "H [m]"], [], false);
@@ -53,6 +53,29 @@ describe("mappingFromForm", () => {
     expect(mappingFromForm(form({ encoding: "ebcdic" })).mapping!.encoding).toBeUndefined();
     expect(encodingFromForm(form({ encoding: "utf-16le" }))).toBe("utf-16le");
     expect(encodingFromForm(form({}))).toBeUndefined();
+  });
+});
+
+describe("a column whose header names a unit its field does not take (Head (kPa), Speed (Hz))", () => {
+  const headers = ["Model", "Speed (Hz)", "Q [m3/h]", "Head (kPa)"];
+  const served = suggestMapping(headers, [], false);
+  const post = (o: Record<string, string>) => mappingFromForm(formOf({ base: JSON.stringify(served), ...o })).mapping!;
+  const errorsOf = (m: typeof served) => checkMapping(m, headers, 1).map((p) => p.column);
+  it("the page asks for its unit: the select starts on “choose…”", () => {
+    expect(served.columns.map(unitToChoose)).toEqual([false, true, false, true]); // source: importer rule (Hz, kPa refused)
+    expect(errorsOf(served)).toEqual(["Speed (Hz)", "Head (kPa)"]); // source: importer rule (mapping errors until chosen)
+  });
+  it("“choose…” left as it is (or no unit sent) keeps the error: the default is not the user's answer", () => {
+    for (const m of [post({ "unit.1": "", "unit.3": "" }), post({})]) {
+      expect(m.columns[3]).toMatchObject({ unit: "m", unitSource: "default" }); // source: mapping-form rule (nothing picked)
+      expect(errorsOf(m)).toEqual(["Speed (Hz)", "Head (kPa)"]); // source: importer rule
+    }
+  });
+  it("a unit picked, even the default one, is the user's answer and clears that column's error", () => {
+    const m = post({ "unit.1": "", "unit.3": "m" });
+    expect(m.columns[3]).toMatchObject({ unit: "m", unitSource: "user" }); // source: mapping-form rule (picked from “choose…”)
+    expect(errorsOf(m)).toEqual(["Speed (Hz)"]); // source: importer rule
+    expect(unitToChoose(m.columns[3])).toBe(false); // source: the select shows the user's unit from now on
   });
 });
 

@@ -3,7 +3,7 @@
 // fix grid's edited cells. Anything unreadable is an error message, never an exception.
 import * as v from "valibot";
 import { decimalField } from "../shared/decimal";
-import { DIAMETER_UNITS, encodingNamed, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
+import { DIAMETER_UNITS, encodingNamed, headerUnitRefusal, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
 
 /** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
 export const impellerUnitOf = (x: unknown): (typeof DIAMETER_UNITS)[number] => DIAMETER_UNITS.find((u) => u === x) ?? "mm";
@@ -11,6 +11,15 @@ export const impellerUnitOf = (x: unknown): (typeof DIAMETER_UNITS)[number] => D
 /** The encoding the user chose, if it is one we decode. */
 export function encodingFromForm(form: FormData): Encoding | undefined {
   return encodingNamed(form.get("encoding"));
+}
+
+/**
+ * True when the page must ask for this column's unit instead of offering one: its header names a unit word
+ * the field does not take (head in kPa, speed in Hz) and the user has not chosen the unit. The unit select
+ * then starts on "choose…" (an empty value), so only a unit picked there counts as the user's.
+ */
+export function unitToChoose(c: Pick<Mapping["columns"][number], "header" | "field" | "unitSource">): boolean {
+  return c.unitSource !== "user" && headerUnitRefusal(c.header, c.field) !== null;
 }
 
 /** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */
@@ -31,8 +40,12 @@ export function mappingFromForm(form: FormData): { mapping?: Mapping; error?: st
     const unitRaw = String(form.get(`unit.${c.index}`) ?? "");
     const numeric = (NUMERIC_FIELDS as readonly string[]).includes(field);
     const allowed = numeric ? (UNITS_BY_FIELD[field as NumericField] as readonly string[]) : [];
-    const unit = numeric ? ((allowed.includes(unitRaw) ? unitRaw : allowed[0]) as Mapping["columns"][number]["unit"]) : null;
-    const changed = field !== c.field || unit !== c.unit;
+    const picked = allowed.includes(unitRaw);
+    // Nothing picked ("choose…", or no unit field sent): the served unit while the field stays, else the field's first unit.
+    const kept = field === c.field && c.unit !== null && allowed.includes(c.unit) ? c.unit : allowed[0];
+    const unit = numeric ? ((picked ? unitRaw : kept) as Mapping["columns"][number]["unit"]) : null;
+    // A unit picked for a column whose header names a unit the field does not take is the user's answer, even when it is the default.
+    const changed = field !== c.field || unit !== c.unit || (picked && unitToChoose({ ...c, field }));
     return { ...c, field, unit, unitSource: changed ? "user" : c.unitSource, block: m.layout === "wide" ? c.block : null };
   });
   const model = String(form.get("defaultModel") ?? "").trim();

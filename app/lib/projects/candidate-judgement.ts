@@ -35,7 +35,7 @@ import {
   type SystemCase,
   type Verdict,
 } from "~/engine";
-import { fmtPct, qt } from "~/engine/quantityText";
+import { fmtPct, qt, qtPair } from "~/engine/quantityText";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -60,12 +60,14 @@ export const governingName = (mode: "open" | "closed-loop") => (mode === "open" 
 export function noPointReason(op: OperatingPointResult): string {
   const f = op.atFirstPoint, l = op.atLastPoint;
   if (op.status === "no-intersection-shutoff-below-static") {
+    const [pump, system] = qtPair("head", f.pumpHead, f.systemHead); // never read as equal beside "below"
     return f.flow === 0
-      ? `shut-off head ${qt("head", f.pumpHead)} is below the system's ${qt("head", f.systemHead)} at zero flow: the pump cannot open its check valve`
-      : `the pump gives ${qt("head", f.pumpHead)} at its first published point (${qt("flow", f.flow)}), below the system's ${qt("head", f.systemHead)} there, and the curves never meet`;
+      ? `shut-off head ${pump} is below the system's ${system} at zero flow: the pump cannot open its check valve`
+      : `the pump gives ${pump} at its first published point (${qt("flow", f.flow)}), below the system's ${system} there, and the curves never meet`;
   }
   if (op.status === "beyond-curve-end") {
-    return `the curve ends at ${qt("flow", l.flow)} still giving ${qt("head", l.pumpHead)} against the system's ${qt("head", l.systemHead)}: the pump would run past its published curve`;
+    const [pump, system] = qtPair("head", l.pumpHead, l.systemHead);
+    return `the curve ends at ${qt("flow", l.flow)} still giving ${pump} against the system's ${system}: the pump would run past its published curve`;
   }
   return op.message;
 }
@@ -88,6 +90,8 @@ export type NpshJudgement = {
   at: string | null;
   /** The rule with its threshold, in words. */
   rule: string;
+  /** The wanted NPSHa / NPSHr (dimensionless); absent in selections frozen before it was kept. */
+  requiredMargin?: number;
 };
 
 /**
@@ -108,7 +112,7 @@ export function npshOverBand(design: number | null, band: readonly BandPoint[], 
       at = where;
     }
   }
-  return { status: npshStatus(marginRatio, requiredMargin), marginRatio, at, rule };
+  return { status: npshStatus(marginRatio, requiredMargin), marginRatio, at, rule, requiredMargin };
 }
 
 export type MotorFigures = {

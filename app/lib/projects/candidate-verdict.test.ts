@@ -194,7 +194,26 @@ describe("the typed duty against the system (3 %, common practice)", () => {
     expect(at(1.031).differs).toBe(true);
     expect(at(0.969).differs).toBe(true);
     expect(inSI(at(1.031).message)).toMatch(/differs by 3\.1 % from the system's head at 100 m³\/h/);
+    // Just past the threshold the percentage never reads as the 3 % it was judged against (toFixed(1) said "3.0 %").
+    expect(inSI(at(1.0301).message)).toMatch(/differs by 3\.01 % from the system's head/);
+    expect(inSI(at(0.9699).message)).toMatch(/differs by -3\.01 % from the system's head/);
     expect(at(1.031).governs).toMatch(/Speed and trim solves and the verdicts use the system's head .* the pump search uses the typed duty head/);
+  });
+});
+
+describe("pipe velocity against the usual range (suction 0.6–1.5 m/s, discharge 0.9–3.0 m/s, common practice)", () => {
+  it("a velocity just past a guide value never prints as it", () => {
+    const base = chw();
+    const v0 = evaluateSystem(base).runs.map((r) => r.velocity);
+    for (const [i, side, guide] of [[0, "suction", 1.5], [1, "discharge", 3.0], [0, "suction", 0.6], [1, "discharge", 0.9]] as const) {
+      const above = guide >= 1.5;
+      const k = (guide * (1 + (above ? 1e-4 : -1e-4))) / v0[i];
+      const run = evaluateSystem({ ...base, duty: { flow: base.duty!.flow * k, head: base.duty!.head } }).runs[i];
+      const m = new RegExp(`^Velocity ([\\d.]+) m/s is ${above ? "above" : "below"} the usual ([\\d.]+) m/s for a ${side} line\\.$`).exec(run.warnings.map(inSI).find((w) => w.startsWith("Velocity")) ?? "");
+      expect(m, run.warnings.join(" | ")).toBeTruthy();
+      expect(Number(m![1]), m![0]).not.toBe(Number(guide.toFixed(m![1].split(".")[1]?.length ?? 0))); // qt alone: "1.50 m/s is above the usual 1.50 m/s"
+      expect(Math.sign(Number(m![1]) - Number(m![2])), m![0]).toBe(above ? 1 : -1);
+    }
   });
 });
 

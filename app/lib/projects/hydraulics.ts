@@ -34,7 +34,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 export * from "./system-input";
 export * from "./candidate-input";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
-import { qt } from "~/engine/quantityText";
+import { fmtNumExact, fmtPctExact, qt, qtPair } from "~/engine/quantityText";
 
 export type RunReport = {
   name: string;
@@ -96,7 +96,7 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
   const message = difference === null
     ? `The system needs no pump head at ${q}: its head there is ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve), so gravity alone delivers the duty flow; the typed duty head ${qt("head", input.duty.head)} is more than the system uses. Check the levels, or whether a pump is needed at this flow.`
     : differs
-    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${(difference * 100).toFixed(1)} % from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
+    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${fmtPctExact(difference, [-DUTY_HEAD_THRESHOLD, DUTY_HEAD_THRESHOLD])} from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
     : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
   const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
   return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
@@ -125,8 +125,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     });
     const guide = VELOCITY_GUIDE[r.side];
     const warnings = wText(res.warnings);
-    if (res.velocity > guide.max) warnings.push(`Velocity ${qt("velocity", res.velocity)} is above the usual ${qt("velocity", guide.max)} for a ${r.side} line.`);
-    if (res.velocity < guide.min) warnings.push(`Velocity ${qt("velocity", res.velocity)} is below the usual ${qt("velocity", guide.min)} for a ${r.side} line.`);
+    if (res.velocity > guide.max) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.max).join(" is above the usual ")} for a ${r.side} line.`);
+    if (res.velocity < guide.min) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.min).join(" is below the usual ")} for a ${r.side} line.`);
     return { name: r.name, side: r.side, velocity: res.velocity, reynolds: res.reynolds, frictionFactor: res.frictionFactor, regime: res.regime, headLoss: res.headLoss, warnings };
   });
   const npsha = curve.flows.map((q) => {
@@ -315,7 +315,7 @@ export function evaluateCandidate(
   const band = bandPoints(ctx);
   const npsh = npshOverBand(figures?.npshMarginRatio ?? null, band, input.npshMargin);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
-    warnings.push(`NPSH at ${npsh.at}: margin ratio ${npsh.marginRatio!.toFixed(2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
+    warnings.push(`NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat
     ? {

@@ -51,8 +51,13 @@ function setFilter(filters: SearchFilters) {
     (!speed || (setSpeed != null && Math.abs(setSpeed - speed) / speed < 0.1));
 }
 
+/** A curve set the engine refused to index (its points break `checkPumpPoints`): which one and why. */
+export type LeftOut = { id: string; label: string; reason: string };
+
 export type PreparedSearch = {
   index: SearchIndex;
+  /** Sets that passed the filters but that the engine left out of the index (stored before the importer applied the engine's rules). */
+  leftOut: LeftOut[];
   /** The curve set behind a row's id, with its revision and library. */
   setOf: (id: string) => IndexedSet;
   /** curveKey per set id, filled as rows are grouped. */
@@ -65,7 +70,9 @@ export async function buildPreparedSearch(open: readonly OpenRevision[], filters
   const sets: IndexedSet[] = [];
   for (const o of open) for (const s of await curvesOfRevisions([o.revisionId])) if (keep(s.type, s.nominalSize, s.speed)) sets.push({ ...s, revisionId: o.revisionId, libraryId: o.libraryId });
   const byId = new Map(sets.map((s) => [String(s.id), s]));
-  return { index: prepareSearchIndex(sets.map(toEngineSet)), setOf: (id) => byId.get(id)!, keys: new Map() };
+  const index = prepareSearchIndex(sets.map(toEngineSet));
+  const leftOut = index.rejected.map((r) => { const s = byId.get(r.id)!; return leftOutOf(r, s.model, s.speed); });
+  return { index, leftOut, setOf: (id) => byId.get(id)!, keys: new Map() };
 }
 
 /** Joins the kept revisions' indexes (filtered by type, size and speed); sets are made back into objects only for the rows used. */
@@ -83,6 +90,13 @@ async function joinPreparedSearch(open: readonly OpenRevision[], filters: Search
     return out;
   });
   const index = parts.length === 1 && all ? parts[0].index : joinSearchIndexes(parts.map((r) => r.index), picks);
+  // The sets each revision's index refused, among those the filters keep (a refused set has no index position to pick).
+  const leftOut: LeftOut[] = [];
+  for (const r of parts)
+    for (const rej of r.index.rejected) {
+      const i = r.position.get(Number(rej.id))!;
+      if (keep(r.type[i], r.nominalSize[i], Number.isNaN(r.speed[i]) ? null : r.speed[i])) leftOut.push(leftOutOf(rej, r.model[i], Number.isNaN(r.speed[i]) ? null : r.speed[i]));
+    }
   const made = new Map<string, IndexedSet>();
   const setOf = (id: string) => {
     let s = made.get(id);
@@ -93,7 +107,18 @@ async function joinPreparedSearch(open: readonly OpenRevision[], filters: Search
     made.set(id, s);
     return s;
   };
-  return { index, setOf, keys: new Map() };
+  return { index, leftOut, setOf, keys: new Map() };
+}
+
+/** "Model · 2900 rpm" and the engine's reason, its point counted from 1 ("points[0].npshr: …" → "point 1 npshr: …"). */
+function leftOutOf(r: { id: string; reason: string }, model: string, speed: number | null): LeftOut {
+  const reason = r.reason.replace(/^points\[(\d+)\]\.?(\w*)/, (_, i: string, f: string) => `point ${Number(i) + 1}${f ? ` ${f}` : ""}`);
+  return { id: r.id, label: speed == null ? model : `${model} · ${speed} rpm`, reason };
+}
+
+/** How many sets the search left out and why (the first few), for the page and the API. */
+function leftOutSummary(l: readonly LeftOut[]) {
+  return { count: l.length, examples: l.slice(0, 3).map((x) => `${x.label}: ${x.reason}`) };
 }
 
 /**
@@ -159,7 +184,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
@@ -240,7 +265,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     alsoIn: libraries.filter((l) => l !== (libraryName.get(s.revisionId) ?? "")),
     verdict,
   }));
-  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;

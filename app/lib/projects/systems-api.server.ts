@@ -31,6 +31,8 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
+    /** Curve sets the engine left out of the search (their points break its rules), with the first reasons. */
+    leftOut: res.leftOut,
     results: res.results.map(searchResultView),
   };
 }

@@ -3,8 +3,11 @@
  * locale, times in UTC, so a page hydrates without a difference).
  */
 
-/** A number for reading (fixed decimals per magnitude) and a fraction as a percentage: the engine's, so its messages read the same. */
-export { fmtNum, fmtPct } from "~/engine/quantityText";
+/**
+ * A number for reading (fixed decimals per magnitude) and a fraction as a percentage: the engine's, so its messages read the same;
+ * their `…Exact` forms for a number shown beside the limits it was judged against.
+ */
+export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText";
 
 /** An amount in a currency's minor unit (2 decimals), e.g. 4900, "eur" → "49.00 EUR". */
 export const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { qt } from "~/engine/quantityText";
+import { qt, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 import { unitLabel } from "~/engine";
-import { fmtQ, picksOf, presetOf, QUANTITIES, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
-import { fmtDate, fmtDateTime, fmtInt, fmtNum, fmtUtc } from "./format";
+import { fmtQ, fmtQExact, picksOf, presetOf, QUANTITIES, renderDeep, renderUnits, SI_UNITS, unitsOf, US_UNITS } from "./units";
+import { fmtDate, fmtDateTime, fmtInt, fmtNum, fmtNumExact, fmtUtc } from "./format";
 
 describe("unitsOf", () => {
   it("takes the preset and valid overrides, one quantity at a time", () => {
@@ -77,6 +77,38 @@ describe("renderUnits", () => {
   it("formats a missing value as a dash", () => {
     expect(fmtQ(SI_UNITS, "flow", null)).toBe("—");
     expect(fmtQ(SI_UNITS, "flow", Infinity)).toBe("—");
+  });
+});
+
+describe("a reading and its limit as tokens of each other (qtExact, qtLimit)", () => {
+  const M3H = 1 / 3600;
+  it("the reading gets the decimals it needs not to read as the limit; the limit shows as typed", () => {
+    const [q, duty] = qtPair("flow", 99.96 * M3H, 100 * M3H);
+    expect(renderUnits(`${q} against ${duty}`, SI_UNITS)).toBe("99.96 m³/h against 100 m³/h"); // qt alone: "100.0 m³/h against 100 m³/h"
+    // 100 m³/h = 440.287 US gpm, 99.96 m³/h = 440.111 gpm (1 gal = 3.785411784 L, NIST SP 811): one decimal tells them apart, in order.
+    expect(renderUnits(`${q} against ${duty}`, US_UNITS)).toBe("440.1 gpm against 440.3 gpm");
+    expect(renderUnits(qtExact("head", 20, [20.02]), SI_UNITS)).toBe("20.00 m"); // a reading keeps the decimals it was given
+    expect(renderUnits(qtLimit("head", 20, [19.98]), SI_UNITS)).toBe("20.0 m"); // a limit drops the added decimals' zeros
+    expect(renderUnits(qtExact("head", 12.3, [4]), SI_UNITS)).toBe(renderUnits(qt("head", 12.3), SI_UNITS)); // apart already
+    expect(fmtQExact(SI_UNITS, "head", 3.998, [4])).toBe("3.998 m");
+    expect(fmtQExact(SI_UNITS, "head", 4, [3.998], true)).toBe("4.00 m");
+  });
+  it("keeps values exactly and renders broken tokens as written", () => {
+    expect(qtExact("flow", 1 / 3, [0.5, null, NaN])).toBe("⟦flow|0.3333333333333333|0.5⟧");
+    expect(qtLimit("flow", 0.5, [1 / 3])).toBe("⟦flow|0.5|limit:0.3333333333333333⟧");
+    expect(qtExact("flow", 0.5, [])).toBe("⟦flow|0.5⟧");
+    expect(renderUnits(qtExact("flow", NaN, [1]), SI_UNITS)).toBe("—");
+    for (const broken of ["⟦head|1|x⟧", "⟦head|1|⟧", "⟦head|1|limit:⟧", "⟦head|1|2,⟧", "⟦flow|1|1e308⟧"]) expect(renderUnits(broken, SI_UNITS)).toBe(broken);
+  });
+  it("fmtNumExact: more decimals only while a number would read as one it is compared with (or zero)", () => {
+    expect(fmtNumExact(1.0996, [1, 1.1], 2)).toBe("1.0996"); // toFixed(2): "1.10" beside a required 1.1
+    expect(fmtNumExact(0.99996, [1, 1.1], 2)).toBe("0.99996");
+    expect(fmtNumExact(1.1, [1, 1.1], 2)).toBe("1.10"); // equal to the limit: reads as it
+    expect(fmtNumExact(1.5, [1, 1.1], 2)).toBe("1.50");
+    expect(fmtNumExact(100, [99.96])).toBe("100.00");
+    expect(fmtNumExact(100, [99.96], undefined, true)).toBe("100");
+    expect(fmtNumExact(-0.00004, [])).toBe("-0.00004"); // not "-0.000"
+    expect(fmtNumExact(null, [1])).toBe("—");
   });
 });
 

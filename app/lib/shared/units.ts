@@ -6,9 +6,9 @@
  * the engine: `⟦flow|0.0111⟧`) live here too, so every page, report and e-mail follows the choice.
  */
 import { fromSI, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
-import { fmtQuantity, renderQuantities } from "~/engine/quantityText";
+import { fmtQuantity, fmtQuantityExact, renderQuantities } from "~/engine/quantityText";
 
-export { fmtNum, fmtPct } from "./format";
+export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "./format";
 
 /** Unit id per quantity, e.g. `{ flow: "L/s", head: "m", … }`. */
 export type UnitChoice = UnitPreset;
@@ -81,6 +81,8 @@ export const fromChosen = (u: UnitChoice, q: Quantity, value: number): number =>
 
 /** An SI value as text in the chosen unit, e.g. `"42.0 m³/h"`; "—" for a missing or non-finite value. */
 export const fmtQ = fmtQuantity;
+/** An SI value shown beside values it is compared with (SI), with the decimals it needs not to read as one of them in the chosen unit. */
+export const fmtQExact = fmtQuantityExact;
 
 export const fmtFlow = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "flow", si);
 export const fmtHead = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "head", si);

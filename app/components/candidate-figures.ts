@@ -1,0 +1,42 @@
+// The candidates table's figures that sit beside a status they decide (POR, NPSH), as text in the
+// reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
+// product concludes at the edges"). Pure; used by CandidateTable in ./workbench.tsx and the search page's rows.
+import { POR_FRACTION } from "~/engine";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+
+/**
+ * A flow as a percentage of BEP flow: whole percent, with the decimals it needs outside the POR not to read as its end ("69.96 %", not "70 %").
+ * @param ratio Q / Q_BEP (dimensionless)
+ * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known
+ */
+export function bepPercentText(ratio: number, inPor: boolean | null | undefined): string {
+  return inPor === false ? fmtPctExact(ratio, [POR_FRACTION.min, POR_FRACTION.max], 0) : fmtPct(ratio, 0);
+}
+
+/**
+ * The operating flow as a share of BEP flow, e.g. "69.96 % of BEP flow — outside POR" (not "70 %").
+ * @param ratio Q / Q_BEP (dimensionless)
+ * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known
+ */
+export function bepPositionText(ratio: number, inPor: boolean | null | undefined): string {
+  return `${bepPercentText(ratio, inPor)} of BEP flow${inPor === false ? " — outside POR" : ""}`;
+}
+
+/**
+ * NPSHa and NPSHr side by side, each with the decimals it needs not to read as the other ("3.998 m / 4.00 m").
+ * @param units the reader's units
+ * @param available NPSHa, m
+ * @param required NPSHr, m (null when the curve has none there)
+ */
+export function npshPairText(units: UnitChoice, available: number, required: number | null | undefined): string {
+  return `${fmtQExact(units, "head", available, [required])} / ${fmtQExact(units, "head", required, [available], true)}`;
+}
+
+/**
+ * An NPSH margin ratio NPSHa / NPSHr that never reads as 1 (cavitation) or the wanted ratio it is judged against ("1.0996", not "1.10").
+ * @param ratio NPSHa / NPSHr (dimensionless)
+ * @param requiredMargin the wanted ratio (dimensionless; absent in selections frozen before it was kept: then only 1)
+ */
+export function npshMarginText(ratio: number | null | undefined, requiredMargin: number | null | undefined): string {
+  return fmtNumExact(ratio, [1, requiredMargin], 2);
+}

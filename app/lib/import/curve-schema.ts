@@ -1,0 +1,55 @@
+/**
+ * What the importer hands on: a curve set in SI and its points, as valibot schemas, exported so the
+ * service can re-check before it writes (import-plan.ts `writable` writes the same rules out for speed).
+ * Besides the shapes they hold the engine's rules (point-rules.ts): power and NPSHr above zero, the
+ * first head above zero, efficiency above zero where flow is above zero, the head-rise rule, and a
+ * plausible best efficiency. Pure.
+ */
+import * as v from "valibot";
+import { BEST_EFFICIENCY, efficiencyPlausible, RISE_FRACTION, risesTooMuch } from "./point-rules";
+
+const NonNegative = v.pipe(v.number(), v.finite(), v.minValue(0));
+const Positive = v.pipe(v.number(), v.finite(), v.gtValue(0));
+const PositiveOrNull = v.nullable(Positive);
+
+export const CurvePointSchema = v.object({
+  flow: NonNegative, // m³/s
+  head: NonNegative, // m
+  efficiency: v.optional(v.pipe(v.number(), v.finite(), v.minValue(0), v.maxValue(1))), // 0..1
+  power: v.optional(Positive), // W (the engine's rule: above zero)
+  npshr: v.optional(Positive), // m (the engine's rule: above zero)
+});
+
+export const CurveSetSchema = v.pipe(
+  v.object({
+    key: v.string(),
+    model: v.pipe(v.string(), v.trim(), v.nonEmpty()),
+    speed: PositiveOrNull, // rpm
+    impellerDiameter: PositiveOrNull, // m
+    type: v.optional(v.string()),
+    size: v.optional(v.string()),
+    notes: v.optional(v.string()),
+    points: v.pipe(v.array(CurvePointSchema), v.minLength(3)),
+    sourceRows: v.array(v.pipe(v.number(), v.integer(), v.minValue(1))),
+    ok: v.boolean(),
+  }),
+  v.check((c) => c.points.every((p, i) => i === 0 || p.flow > c.points[i - 1].flow), "flow must increase"),
+  // The engine's rules (point-rules.ts, app/engine/pumpCurve.ts checkPumpPoints) and the plausible best efficiency.
+  v.check((c) => c.points.length > 0 && c.points[0].head > 0, "the first point's head must be above zero"),
+  v.check((c) => c.points.every((p) => !(p.efficiency === 0 && p.flow > 0)), "efficiency must be above zero where flow is above zero"),
+  v.check((c) => {
+    let lowest = Infinity;
+    for (const p of c.points) {
+      if (risesTooMuch(p.head, lowest, c.points[0].head)) return false;
+      lowest = Math.min(lowest, p.head);
+    }
+    return true;
+  }, `head must not rise above the lowest head before it by more than ${RISE_FRACTION * 100} % of the first head`),
+  v.check((c) => {
+    const best = c.points.reduce((m, p) => Math.max(m, p.efficiency ?? -1), -1);
+    return best <= 0 || efficiencyPlausible(best);
+  }, `best efficiency must lie within ${BEST_EFFICIENCY.min * 100}–${BEST_EFFICIENCY.max * 100} %`),
+);
+
+export type CurvePoint = v.InferOutput<typeof CurvePointSchema>;
+export type CurveSet = v.InferOutput<typeof CurveSetSchema>;

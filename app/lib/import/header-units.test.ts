@@ -1,0 +1,77 @@
+// Whole files whose headers name a unit the field does not take: a mapping error the distributor sees, never a
+// default unit with ok curves (edge hunt of 2026-12-03, item 2). Files are hand-written; values are invented.
+import { describe, expect, it } from "vitest";
+import { analyseCsv } from "./index";
+import type { Mapping } from "./mapping";
+import { relClose } from "./test-helpers";
+
+const file = (header: string, speed: string, rows: string[]) => `Model,${header}\n${rows.map((r) => `A,${speed},${r}`).join("\n")}\n`;
+
+describe("header units in whole files", () => {
+  it.each([
+    ["Speed (Hz),Flow m3/h,Head m", "Speed (Hz)", "Hz", "50"], // source: hunt item 2 (50 Hz was imported as 50 rpm)
+    ["Speed rpm,Flow m3/h,Head (kPa)", "Head (kPa)", "kPa", "2900"], // source: hunt item 2 (200 kPa was imported as 200 m)
+    ["Speed rpm,Flow m3/h,Head (in)", "Head (in)", "in", "2900"], // source: hunt item 2 (inches imported as m)
+    ["Speed rpm,Flow (cfm),Head m", "Flow (cfm)", "cfm", "2900"], // source: importer rule (cubic feet not read)
+    ["Speed rpm,Flow m3/h,Head m,Power (PS)", "Power (PS)", "PS", "2900"], // source: hunt item 2 (PS imported as kW)
+    ["Speed rpm,Flow m3/h,Head m,Power [MW]", "Power [MW]", "MW", "2900"], // source: hunt item 2 (MW imported as kW)
+  ])("%s: a mapping error naming “%s” and “%s”; nothing imported", (header, column, word, speed) => {
+    const extra = header.split(",").length > 3 ? ",3" : "";
+    const a = analyseCsv(file(header, speed, [`0,20${extra}`, `10,19${extra}`, `20,17${extra}`, `30,14${extra}`]));
+    const errors = a.result.problems.filter((p) => p.severity === "error");
+    expect(errors.map((p) => [p.row, p.code, p.column])).toEqual([[1, "mapping", column]]); // source: importer rule (one error on the header line)
+    expect(errors[0].reason).toContain(`“${column}” gives the unit “${word}”`); // source: importer rule (names header and word)
+    expect(a.result.curveSets.filter((c) => c.ok)).toEqual([]); // source: README (nothing is imported under a mapping error)
+  });
+
+  it("Flow GPM (Imp): imperial gallons, not US (100 Igpm = 100 × 4.54609 L / 60 s)", () => {
+    const a = analyseCsv(file("Speed rpm,Flow GPM (Imp),Head ft", "1450", ["0,100", "100,95", "200,80", "300,55"]));
+    expect(a.result.problems).toEqual([]); // source: hand-written clean file
+    const q = a.result.curveSets[0].points[1].flow;
+    expect(relClose(q, (100 * 4.54609e-3) / 60)).toBe(true); // source: UK Weights and Measures Act 1985 (1 imperial gallon = 4.54609 L exactly)
+    expect(relClose(q, (100 * 3.785411784e-3) / 60)).toBe(false); // source: NIST SP 811 (the US gallon, 3.785411784 L: the old reading, 16.7 % low)
+  });
+
+  it("Flow (L/h): 500 L/h is 0.5 m³/h, not 500 m³/h", () => {
+    const a = analyseCsv(file("Speed rpm,Flow (L/h),Head m", "2900", ["0,20", "500,19", "1000,17", "1500,14"]));
+    expect(a.result.problems).toEqual([]); // source: hand-written clean file
+    expect(relClose(a.result.curveSets[0].points[1].flow, 0.5 / 3600)).toBe(true); // source: SI definitions (1 L = 1e-3 m³, 1 h = 3600 s)
+  });
+
+  it("NPSHa and motor efficiency columns are left unmapped, so they never become NPSHr or the pump's efficiency", () => {
+    const a = analyseCsv(file("Speed rpm,Flow m3/h,Head m,NPSHa m,Motor efficiency %", "2900", ["0,20,9,0", "10,19,9,85", "20,17,9,88"]));
+    expect(a.mapping.columns.map((c) => c.field)).toEqual(["model", "speed", "flow", "head", "ignore", "ignore"]); // source: definitions (NPSHa is the system's; motor η is not the pump's)
+    expect(a.result.curveSets[0].points.every((p) => p.npshr === undefined && p.efficiency === undefined)).toBe(true); // source: same
+  });
+
+  it("a unit the user chose clears the error; a default unit or one chosen for another header does not", () => {
+    const text = file("Speed rpm,Flow m3/h,Head (kPa)", "2900", ["0,20", "10,19", "20,17"]);
+    const m = analyseCsv(text).suggestedMapping;
+    expect(m.columns[3]).toMatchObject({ field: "head", unit: "m", unitSource: "default" }); // source: DEFAULT_UNIT (only a placeholder: refused below)
+    const chosen: Mapping = { ...m, columns: m.columns.map((c) => (c.index === 3 ? { ...c, unitSource: "user" as const } : c)) };
+    const ok = analyseCsv(text, chosen).result;
+    expect(ok.problems).toEqual([]); // source: importer rule (the user answered for the column)
+    expect(ok.curveSets[0].points[1].head).toBe(19); // source: the user's unit, m
+    const asApi: Mapping = { ...m, columns: m.columns.map((c) => (c.index === 3 ? { ...c, unitSource: undefined } : c)) };
+    expect(analyseCsv(text, asApi).result.problems.map((p) => p.code)).toEqual(["mapping"]); // source: importer rule (only "user" answers)
+    const saved = analyseCsv(text.replace("Head (kPa)", "Head m")).suggestedMapping;
+    const fromOther: Mapping = { ...saved, columns: saved.columns.map((c) => (c.index === 3 ? { ...c, unitSource: "user" as const } : c)) };
+    const p = analyseCsv(text, fromOther).result.problems;
+    expect(p.map((x) => [x.code, x.severity, x.column])).toEqual([["header-changed", "warning", "Head (kPa)"], ["mapping", "error", "Head (kPa)"]]); // source: importer rule (the choice was for “Head m”)
+  });
+
+  it("of two columns for one field, the one whose unit can be read is mapped and the refused one left unmapped", () => {
+    const a = analyseCsv("Model,Speed (Hz),Speed rpm,Flow m3/h,Head (kPa),Head m\nA,50,2900,0,200,20\nA,50,2900,10,190,19\nA,50,2900,20,170,17\n");
+    expect(a.mapping.columns.map((c) => c.field)).toEqual(["model", "ignore", "speed", "flow", "ignore", "head"]); // source: importer rule (readable unit first)
+    expect(a.result.problems).toEqual([]); // source: hand-written clean file once mapped so
+    expect(a.result.curveSets.map((c) => [c.key, c.ok])).toEqual([["A|2900|", true]]); // source: hand-written file (2900 rpm)
+  });
+
+  it("wide blocks by frequency (Q@50Hz, H@50Hz) are refused, not read as impellers of 50 and 60 mm", () => {
+    const a = analyseCsv("Model,Q@50Hz,H@50Hz,Q@60Hz,H@60Hz\nA,0,20,0,29\nA,10,19,12,27\nA,20,17,24,24\n");
+    expect(a.mapping.columns.some((c) => c.block)).toBe(false); // source: a frequency is neither a speed in rpm nor a diameter
+    const refused = a.result.problems.filter((p) => p.code === "mapping" && /gives the unit “\d\dHz”/.test(p.reason));
+    expect(refused.map((p) => p.column)).toEqual(["Q@50Hz", "H@50Hz"]); // source: importer rule (the later two columns are left unmapped as repeats)
+    expect(a.result.curveSets.filter((c) => c.ok)).toEqual([]); // source: README (nothing is imported under a mapping error)
+  });
+});

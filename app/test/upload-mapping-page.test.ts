@@ -1,0 +1,45 @@
+// The mapping page's markup, rendered on the server from loader data (no database): a column whose header names a
+// unit its field does not take ("Head (kPa)") offers no unit — its select starts on "choose…" and says why — while
+// a column whose unit was only assumed keeps its default and the "assumed" mark. The file is invented.
+import { describe, expect, it } from "vitest";
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { createRoutesStub } from "react-router";
+import UploadPreview, { type loader } from "~/routes/libraries.$id.uploads.$uploadId";
+import { analyseStored, summarise } from "~/lib/libraries/upload-analysis";
+import { SI_UNITS } from "~/lib/shared/units";
+
+const csv = "Model,Speed rpm,Flow,Head (kPa)\nA,2900,0,200\nA,2900,10,190\nA,2900,20,170\n";
+
+function render(text: string): string {
+  const data = {
+    lib: { id: 1, name: "Test library" },
+    upload: { id: 2, filename: "kpa.csv", size: text.length, sha256: "0".repeat(64), source: null },
+    unitSystem: SI_UNITS,
+    correctedFrom: null,
+    ...summarise(analyseStored(text, { mappingJson: null })),
+  } satisfies Awaited<ReturnType<typeof loader>>; // the loader's own shape
+  const Stub = createRoutesStub([{ path: "/libraries/:id/uploads/:uploadId", Component: UploadPreview as never, loader: () => data }]);
+  return renderToString(createElement(Stub, { initialEntries: ["/libraries/1/uploads/2"], hydrationData: { loaderData: { "0": data } } } as never));
+}
+const selectOf = (html: string, label: string) => [...html.matchAll(/<select[^>]*aria-label="([^"]*)"[^>]*>([\s\S]*?)<\/select>/g)].find((m) => m[1] === label)?.[2] ?? "";
+const selected = (options: string) => /<option value="([^"]*)" selected="">/.exec(options)?.[1];
+
+describe("mapping page: a header unit the field does not take", () => {
+  const html = render(csv);
+  it("the unit select of “Head (kPa)” starts on “choose…” and says the word was not read", () => {
+    const head = selectOf(html, "Unit of Head (kPa)");
+    expect(head).toContain(">choose…</option>"); // source: importer rule (no unit offered for a refused word)
+    expect(selected(head)).toBe(""); // source: same (the default m is not preselected)
+    expect(html).toContain("“<!-- -->kPa<!-- -->” is not a unit the importer reads for <!-- -->Head"); // source: importer rule (names the word and the field)
+  });
+  it("a column with no unit word keeps its default and the “assumed” mark", () => {
+    const flow = selectOf(html, "Unit of Flow");
+    expect(selected(flow)).toBe("m3/h"); // source: DEFAULT_UNIT (flow)
+    expect(flow).not.toContain("choose…"); // source: nothing refused in “Flow”
+    expect(html).toContain(">assumed</span>"); // source: unitSource "default" shown as before
+  });
+  it("the problems list names the header and the units head takes", () => {
+    expect(html).toContain("“Head (kPa)” gives the unit “kPa”, which the importer does not read for head (it reads m, ft)"); // source: refusalMessage
+  });
+});
