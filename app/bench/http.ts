@@ -183,7 +183,7 @@ export async function runHttpBench() {
     out.push(`${"".padEnd(40)} ${"mean ms".padStart(9)} ${"p50 ms".padStart(8)} ${"max ms".padStart(8)}`);
     out.push(`${"GET /systems/:id/search (10 000 sets)".padEnd(40)} ${search.mean.toFixed(0).padStart(9)} ${search.p50.toFixed(0).padStart(8)} ${search.max.toFixed(0).padStart(8)}`);
     out.push(`${"GET /systems/:id (3 candidates)".padEnd(40)} ${page.mean.toFixed(0).padStart(9)} ${page.p50.toFixed(0).padStart(8)} ${page.max.toFixed(0).padStart(8)}`);
-    const selId = await selectCandidate(ev, (await listCandidates(ev, systemId))[0].id, "Bench selection", "");
+    const selId = await selectCandidate(ev, (await listCandidates(ev, systemId)).readable[0].id, "Bench selection", "");
     const sel = await load("GET /selections/:id (report page)", `${app.url}/selections/${selId}`, { cookie }, { method: "GET", connections: 8 });
     out.push("");
     out.push(`${"".padEnd(40)} ${"req/s".padStart(9)} ${"p50 ms".padStart(8)} ${"p99 ms".padStart(8)} ${"errors".padStart(7)} ${"non-2xx".padStart(8)}`);

@@ -15,6 +15,7 @@ const SYSTEM_FIELDS: [string, string][] = [
   ["evaluation", "system curve: flows (m³/s), design / low / high head (m) over the band, pressure (Pa), per-run figures at the duty flow, NPSHa (m), warnings; null with systemError when the inputs cannot be evaluated"],
   ["flowMax", "upper end of the evaluated flow range, m³/s"],
   ["candidates[]", "id, curveSetId, label, library, adjustment (method none/speed/trim, ratio, arrangement, pumps), result (operating point, curve, figures, warnings, and result.verdict { status, rule, reasons }), error"],
+  ["needsReview[]", "candidates whose stored adjustment does not pass the checks: id, curveSetId, label, library, count, problems [{ path, label, message, stored }], form (the stored values as far as they read); never evaluated, so not among candidates[]"],
 ];
 
 const SEARCH_FIELDS: [string, string][] = [

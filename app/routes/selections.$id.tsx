@@ -43,6 +43,7 @@ export default function SelectionReport() {
     // The selected pump's own range (frozen curve and operating point) with the duty: never another candidate's.
     flowMax: resultFlowMax(input, f.result),
     candidates: [{ id: 0, curveSetId: f.pump.curveSetId, label: f.pump.label, library: `${f.pump.library.name ?? ""} rev. ${f.pump.library.revision ?? "?"}`, adjustment: f.adjustment, result: f.result, error: null, energy: f.energy ?? null }],
+    needsReview: [],
   };
   return (
     <article className="print-compact mx-auto max-w-5xl space-y-5 print:max-w-none print:space-y-2">

@@ -17,6 +17,7 @@ import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
 import { RunsFieldset } from "~/components/system-editor/RunsFieldset";
 import { CandidateActions } from "~/components/system-editor/CandidateActions";
+import { CandidatesNeedingReview } from "~/components/system-editor/CandidatesNeedingReview";
 import { DutyCycleFieldset } from "~/components/system-editor/DutyCycleFieldset";
 import { useUnsavedChanges } from "~/components/system-editor/useUnsavedChanges";
 import { LeaveQuestion } from "~/components/system-editor/LeaveQuestion";
@@ -194,7 +195,7 @@ export default function SystemPage() {
               </section>
               <section className="panel space-y-3">
                 <h2 className="font-semibold">Candidates</h2>
-                {view.candidates.length === 0 ? (
+                {view.candidates.length === 0 && view.needsReview.length === 0 ? (
                   <p className="text-sm text-slate-600">
                     No candidates yet. <a href={`/systems/${d.id}/search`}>Search the libraries open to you</a> for pumps that meet the duty.
                   </p>
@@ -205,6 +206,7 @@ export default function SystemPage() {
                     actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
                   />
                 )}
+                <CandidatesNeedingReview items={view.needsReview} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} />
               </section>
               <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
             </>

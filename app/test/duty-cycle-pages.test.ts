@@ -18,6 +18,8 @@ import { importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
 import { call, makeMember, type TestMember } from "./harness";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import SelectionReport, * as selectionPage from "~/routes/selections.$id";
+import * as selectionCsv from "~/routes/selections.$id.export-csv";
+import Papa from "papaparse";
 
 // An invented pump for a low-head circuit: H = 5.5 − 0.0008 · Q² (m, Q in m³/h), efficiency peaking at 75 % near 36 m³/h.
 const CSV = [
@@ -54,7 +56,7 @@ const STEP = 1e-4; // each side of the crossing (a 0.01 % of the duty flow)
 
 let m: TestMember;
 let v: Viewer;
-const pages: Record<"below" | "above", { system: string; report: string; print: string }> = {} as never;
+const pages: Record<"below" | "above", { system: string; report: string; print: string; csv: string[][] }> = {} as never;
 
 function render(path: string, Component: unknown, data: unknown): string {
   const Stub = createRoutesStub([{ path, Component: Component as never, loader: () => data }]);
@@ -88,7 +90,9 @@ beforeAll(async () => {
     expect(sel.status).toBe(200);
     const report = render("/selections/:id", SelectionReport, sel.body);
     const print = /data-testid="cycle-notes-print"[^>]*>([\s\S]*?)<\/ul>/.exec(report)?.[1] ?? "";
-    pages[side] = { system: text(render("/systems/:id", SystemPage, sys.body)), report: text(report), print: text(print) };
+    const csv = await call(selectionCsv.loader as never, { path: `/selections/${selectionId}/export.csv`, cookie: m.cookie, params: { id: String(selectionId) } });
+    expect(csv.status).toBe(200);
+    pages[side] = { system: text(render("/systems/:id", SystemPage, sys.body)), report: text(report), print: text(print), csv: Papa.parse<string[]>(String(csv.body).trim()).data };
   }
 });
 afterAll(() => closeDb());
@@ -121,5 +125,54 @@ describe(`a step at the crossing of the control and system curves (found at ${(F
     expect(pages.above.system).toMatch(/\d+\.\d % speed/);
     expect(pages.above.system).toMatch(/▲ at 18 % flow the motor runs at \d+\.\d+ % load: part-load efficiencies below 10 % load are taken at their 10 % values/);
     expect(pages.above.print).toMatch(/Step at 18 % flow, 2000 h: at 18 % flow the motor runs at \d+\.\d+ % load/);
+  });
+});
+
+/** The rows of a CSV section (after its header row, up to the blank line), and its header. */
+function section(rows: string[][], name: string): { head: string[]; rows: string[][] } {
+  const at = rows.findIndex((r, i) => r[0] === "section" && rows[i + 1]?.[0] === name);
+  if (at < 0) return { head: [], rows: [] };
+  const end = rows.findIndex((r, i) => i > at && r[0] !== name);
+  return { head: rows[at], rows: rows.slice(at + 1, end < 0 ? undefined : end) };
+}
+const figure = (rows: string[][], name: string) => rows.find((r) => r[0] === "figures" && r[1] === name);
+const CYCLE_HEAD = ["section", "step", "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", "shaft_power_w", "load_fraction", "motor_efficiency", "drive_efficiency", "electrical_input_w", "energy_kwh", "engine_status", "message", "warnings"];
+
+describe("the selection's CSV export carries the duty cycle as the report does (was: no duty cycle, totals or life-cycle cost at all)", () => {
+  test("just below the crossing: each step with its units, the unmet one 'not met' with the engine's message and no energy; the totals marked incomplete", () => {
+    const rows = pages.below.csv;
+    const cycle = section(rows, "duty_cycle");
+    expect(cycle.head).toEqual(CYCLE_HEAD); // units in the headers, as the rest of the CSV
+    expect(cycle.rows.map((r) => [r[1], r[3], r[6]])).toEqual([["1", "2000", "not met"], ["2", "1000", "met"]]);
+    const col = (name: string) => CYCLE_HEAD.indexOf(name);
+    const [unmet, met] = cycle.rows;
+    expect(Number(unmet[col("flow_fraction")])).toBeCloseTo(F - STEP, 9);
+    expect(`not met: ${unmet[col("message")]}`).toMatch(NOT_MET);
+    expect([unmet[col("electrical_input_w")], unmet[col("energy_kwh")]]).toEqual(["", ""]);
+    expect(Number(met[col("electrical_input_w")])).toBeGreaterThan(0);
+    // The total is the met steps' energy (the unmet one is missing from it): 1000 h × the electrical input, kWh.
+    expect(Number(met[col("energy_kwh")])).toBeCloseTo((Number(met[col("electrical_input_w")]) * 1000) / 1000, 6);
+    expect(Number(figure(rows, "cycle_annual_energy_electrical")?.[2])).toBeCloseTo(Number(met[col("energy_kwh")]), 6);
+    expect(figure(rows, "cycle_complete")?.[2]).toBe("false");
+    expect(figure(rows, "cycle_incomplete_note")?.[2]).toMatch(/^incomplete: 1 of 2 steps not met/);
+    expect(figure(rows, "cycle_total_hours")?.slice(2)).toEqual(["3000", "h"]);
+  });
+  test("the life-cycle cost year by year and as a total (its last cumulative present value), in the workspace's currency", () => {
+    const rows = pages.below.csv;
+    const lcc = section(rows, "life_cycle_cost");
+    const years = Number(figure(rows, "lcc_years")?.[2]);
+    expect(years).toBe(DEFAULT_ENERGY_SETTINGS.years);
+    expect(lcc.rows.map((r) => r[1])).toEqual(Array.from({ length: years }, (_, i) => String(i + 1)));
+    expect(lcc.head[2]).toMatch(/^energy_cost_/);
+    expect(Number(lcc.rows[years - 1][4])).toBeCloseTo(Number(figure(rows, "lcc_total_present_value")?.[2]), 4);
+  });
+  test("just above it: every step met, the cycle complete, no incomplete note", () => {
+    const rows = pages.above.csv;
+    const steps = section(rows, "duty_cycle").rows;
+    expect(steps.map((r) => r[6])).toEqual(["met", "met"]);
+    expect(steps[0][CYCLE_HEAD.indexOf("warnings")]).toMatch(/^at 18 % flow the motor runs at \d+\.\d+ % load/); // the engine's warning at its step, as on the page
+    expect(figure(rows, "cycle_complete")?.[2]).toBe("true");
+    expect(figure(rows, "cycle_incomplete_note")).toBeUndefined();
+    expect(rows.flat().join(" ")).not.toMatch(/not met/);
   });
 });

@@ -11,7 +11,12 @@ afterAll(() => closeDb());
 
 test("GET /field/selections/:id: the frozen selection comes without its energy, purchase price, life-cycle cost and yearly energy cost; the pump and result are there", async () => {
   const m = await makeMember("engineer");
-  const energy = { purchasePrice: 2450.5, lcc: { total: 98765.4, yearly: [], cumulative: [] }, annualCost: 1234.5 };
+  // A whole energy part as frozen (CandidateEnergy: a part missing its fields is a damaged document, refused with 409).
+  const energy = {
+    control: "fixed-speed", controlLabel: "Fixed speed", profileSource: "common-practice", profileLabel: "Common practice", cycle: null, cycleError: "no motor rating or efficiency: no duty cycle",
+    annualCost: 1234.5, purchasePrice: 2450.5, costMissing: null, assumptions: [],
+    lcc: { purchase: 2450.5, purchaseGiven: true, yearly: [], energyPresentValue: 96314.9, total: 98765.4, cumulative: [], source: "invented" },
+  };
   expect(frozenFixture().result.figures?.annualCost, "the fixture has a yearly energy cost to hide").toBeGreaterThan(0);
   const { selectionId } = await storeSelection(m.workspaceId, m.userId, { ...frozenFixture(), energy } as never, "Priced");
   const r = await call(fieldForm.loader as never, { path: `/field/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });

@@ -3,9 +3,14 @@
 import { Form } from "react-router";
 import { IE_CLASSES } from "~/engine";
 import { labelOf, toChosen, type UnitChoice } from "~/lib/shared/units";
-import type { WorkbenchView } from "~/lib/projects/workbench-view";
+import type { Adjustment } from "~/lib/projects/candidate-input";
+import { MAX_DUTY_PUMPS, MAX_STANDBY_PUMPS } from "~/lib/projects/candidate-input";
 
-export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; error?: string }) {
+/** A number as the form shows it: one stored missing or not a number (NaN, a candidate needing review) is blank. */
+const shown = (x: number) => (Number.isFinite(x) ? String(x) : "");
+
+/** `c.adjustment`: the candidate's, or for one needing review the stored values as far as they read (`adjustFormValues`). */
+export function AdjustForm({ c, unitSystem, error }: { c: { id: number; adjustment: Adjustment }; unitSystem: UnitChoice; error?: string }) {
   const a = c.adjustment;
   return (
     <Form method="post" className="space-y-1 text-xs">
@@ -20,7 +25,7 @@ export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candida
       </label>
       <label className="block">
         Ratio % (blank: solve for the duty)
-        <input name="ratio" inputMode="decimal" defaultValue={a.ratio != null ? String(+(a.ratio * 100).toFixed(2)) : ""} className="field py-0.5 text-xs" />
+        <input name="ratio" inputMode="decimal" defaultValue={a.ratio != null ? shown(+(a.ratio * 100).toFixed(2)) : ""} className="field py-0.5 text-xs" />
       </label>
       <label className="block">
         Pumps
@@ -33,21 +38,21 @@ export function AdjustForm({ c, unitSystem, error }: { c: WorkbenchView["candida
       <div className="flex gap-1">
         <label className="block">
           duty
-          <input name="dutyPumps" type="number" min={1} max={8} defaultValue={a.dutyPumps} className="field w-14 py-0.5 text-xs" />
+          <input name="dutyPumps" type="number" min={1} max={MAX_DUTY_PUMPS} defaultValue={shown(a.dutyPumps)} className="field w-14 py-0.5 text-xs" />
         </label>
         <label className="block">
           standby
-          <input name="standbyPumps" type="number" min={0} max={8} defaultValue={a.standbyPumps} className="field w-14 py-0.5 text-xs" />
+          <input name="standbyPumps" type="number" min={0} max={MAX_STANDBY_PUMPS} defaultValue={shown(a.standbyPumps)} className="field w-14 py-0.5 text-xs" />
         </label>
       </div>
       <div className="flex gap-1">
         <label className="block">
           motor {labelOf(unitSystem, "power")} (blank: suggested)
-          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? String(+toChosen(unitSystem, "power", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
+          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? shown(+toChosen(unitSystem, "power", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
         </label>
         <label className="block">
           service factor
-          <input name="serviceFactor" inputMode="decimal" defaultValue={a.serviceFactor} className="field w-14 py-0.5 text-xs" />
+          <input name="serviceFactor" inputMode="decimal" defaultValue={shown(a.serviceFactor)} className="field w-14 py-0.5 text-xs" />
         </label>
         <label className="block">
           class

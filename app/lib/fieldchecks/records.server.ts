@@ -11,7 +11,7 @@ import { and, desc, eq, inArray, or, sql } from "drizzle-orm";
 import { data } from "react-router";
 import { db, withTransaction } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
-import type { FrozenSelection } from "../projects/selections.server";
+import { frozenOf } from "../projects/selections.server";
 import type { Viewer } from "../libraries";
 import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
@@ -31,8 +31,11 @@ async function sharedProjectIds(viewer: Viewer): Promise<number[]> {
   return rows.map((r) => r.projectId);
 }
 
-/** A selection open to the viewer for field checks: its own workspace's, or one of a project shared with it. */
-export async function fieldSelection(viewer: Viewer, selectionId: number) {
+/**
+ * A selection open to the viewer for field checks (its own workspace's, or one of a project shared with it), without
+ * reading its frozen document: what a recorded check's page needs (the check carries its own stored result).
+ */
+export async function fieldSelectionRecord(viewer: Viewer, selectionId: number) {
   const [row] = await db()
     .select({ s: selections, projectName: projects.name, projectCreatedBy: projects.createdBy, systemName: systems.name, ownerName: workspaces.name, shareId: projectShares.id })
     .from(selections)
@@ -43,6 +46,7 @@ export async function fieldSelection(viewer: Viewer, selectionId: number) {
     .where(eq(selections.id, selectionId));
   if (!row || (row.s.workspaceId !== viewer.workspace.id && row.shareId == null)) throw notFound("selection");
   return {
+    record: row.s,
     id: row.s.id,
     title: row.s.title,
     projectId: row.s.projectId,
@@ -52,9 +56,20 @@ export async function fieldSelection(viewer: Viewer, selectionId: number) {
     own: row.s.workspaceId === viewer.workspace.id,
     createdBy: row.s.createdBy,
     projectCreatedBy: row.projectCreatedBy,
-    frozen: JSON.parse(row.s.frozenJson) as FrozenSelection,
+  };
+}
+
+/**
+ * A selection open to the viewer for field checks with its frozen document, which a check is worked out against;
+ * refuses (409, `storedSelectionRefusal`) when that document cannot be read — never a check against half a record.
+ */
+export async function fieldSelection(viewer: Viewer, selectionId: number) {
+  const { record, ...sel } = await fieldSelectionRecord(viewer, selectionId);
+  return {
+    ...sel,
+    frozen: frozenOf(record),
     /** What the phone worked against: a change of the frozen document or title is a conflict on sync. */
-    fingerprint: createHash("sha256").update(row.s.title).update("\n").update(row.s.frozenJson).digest("hex").slice(0, 32),
+    fingerprint: createHash("sha256").update(record.title).update("\n").update(record.frozenJson).digest("hex").slice(0, 32),
   };
 }
 
@@ -95,9 +110,11 @@ type CheckRow = typeof fieldChecks.$inferSelect;
 export async function getFieldCheck(viewer: Viewer, checkId: number) {
   const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, checkId));
   if (!row) throw notFound("field check");
-  let sel;
+  // The check carries its own stored result: its page does not read the selection's frozen document.
+  let sel: Omit<Awaited<ReturnType<typeof fieldSelectionRecord>>, "record">;
   try {
-    sel = await fieldSelection(viewer, row.selectionId);
+    const { record: _record, ...rest } = await fieldSelectionRecord(viewer, row.selectionId);
+    sel = rest;
   } catch {
     throw notFound("field check");
   }
@@ -129,9 +146,15 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
   };
 }
 
-/** Every check of a selection, newest first. */
+/** Every check of a selection, newest first, with the selection's frozen document (the check page; 409 when it cannot be read). */
 export async function checkHistory(viewer: Viewer, selectionId: number) {
   const sel = await fieldSelection(viewer, selectionId);
+  return { selection: sel, checks: await checksOf(sel.id) };
+}
+
+/** Every check of a selection, newest first, without its frozen document (the checks' CSV: each check carries its own result). */
+export async function checkRecords(viewer: Viewer, selectionId: number) {
+  const { record: _record, ...sel } = await fieldSelectionRecord(viewer, selectionId);
   return { selection: sel, checks: await checksOf(sel.id) };
 }
 

@@ -29,7 +29,7 @@ describe("readAdjustForm", () => {
     expect(readAdjustForm(form({ ...base, motorRating: "0" }), US_UNITS).adjustment?.motorRating).toBe(0); // 0 is "suggested", as blank
     expect(readAdjustForm(form({ ...base, serviceFactor: "abc" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor must be a number." });
     expect(readAdjustForm(form({ ...base, serviceFactor: "0" }), SI_UNITS)).toEqual({ adjustment: null, error: "The service factor is 1 to 1.5." }); // below 1: the schema refuses it
-    expect(readAdjustForm(form({ ...base, dutyPumps: "2,5" }), SI_UNITS).error).toBe("The number of duty pumps is a whole number from 1 to 8.");
+    expect(readAdjustForm(form({ ...base, dutyPumps: "2,5" }), SI_UNITS).error).toBe("The number of duty pumps must be a whole number from 1 to 8, written in digits: “2,5” is not.");
     expect(readAdjustForm(form({ ...base, serviceFactor: "" }), SI_UNITS).adjustment?.serviceFactor).toBe(1);
     // Two bad fields: a message for each.
     expect(readAdjustForm(form({ ...base, motorRating: "abc", serviceFactor: "x" }), SI_UNITS).error).toBe("The motor rating must be a number. The service factor must be a number.");
@@ -44,5 +44,22 @@ describe("readAdjustForm", () => {
     expect(readAdjustForm(form({ ...base, method: "magic" }), SI_UNITS).adjustment).toBeNull();
     expect(readAdjustForm(form({ ...base, ratio: "NaN" }), SI_UNITS).adjustment).toBeNull();
     expect(readAdjustForm(form({ ...base, serviceFactor: "Infinity" }), SI_UNITS).adjustment).toBeNull();
+  });
+});
+
+describe("readAdjustForm: duty and standby pumps are counts typed in digits (product rule; shared/decimal.ts countField, AdjustmentSchema's limits)", () => {
+  // What the decimal reader made of them before: 1e0 → 1, 2,0 → 2, 2.0 → 2 (accepted as pumps).
+  it.each(["1e0", "2,0", "2.0", "0x2", "+2", "-1", "2.5", "Infinity", "abc", "9"])("%j duty pumps is an error naming the field, its range and what was typed", (typed) => {
+    const r = readAdjustForm(form({ ...base, arrangement: "parallel", dutyPumps: typed }), SI_UNITS);
+    expect(r.adjustment).toBeNull();
+    expect(r.error).toBe(`The number of duty pumps must be a whole number from 1 to 8, written in digits: “${typed}” is not.`);
+  });
+  it.each(["1e0", "1,0", "1.0", "-1", "9"])("%j standby pumps is an error the same way (0 to 8)", (typed) => {
+    expect(readAdjustForm(form({ ...base, standbyPumps: typed }), SI_UNITS).error).toBe(`The number of standby pumps must be a whole number from 0 to 8, written in digits: “${typed}” is not.`);
+  });
+  it("0 duty pumps is below the minimum, said so; 1 to 8 and standby 0 to 8 are taken; blank is 1 duty and 0 standby", () => {
+    expect(readAdjustForm(form({ ...base, dutyPumps: "0" }), SI_UNITS)).toEqual({ adjustment: null, error: "The number of duty pumps must be at least 1 (a whole number from 1 to 8): “0” is too few." });
+    expect(readAdjustForm(form({ ...base, arrangement: "parallel", dutyPumps: " 8 ", standbyPumps: "8" }), SI_UNITS).adjustment).toMatchObject({ dutyPumps: 8, standbyPumps: 8 });
+    expect(readAdjustForm(form({ ...base, dutyPumps: "", standbyPumps: "" }), SI_UNITS).adjustment).toMatchObject({ dutyPumps: 1, standbyPumps: 0 });
   });
 });

@@ -1,11 +1,11 @@
 // Reads the candidate adjustment form (AdjustForm) into an Adjustment: numbers through the forms' strict
 // reader (shared/decimal.ts: a decimal point or comma, 1,500 refused as ambiguous), the ratio in percent
 // (blank: solve for the duty), the motor rating in the user's power unit (blank or 0: suggested), the
-// service factor (blank: 1). Text that is not a number is an error naming its field, never a silent
-// default. Pure: the route validates with AdjustmentSchema through this.
+// service factor (blank: 1), the duty and standby pumps as counts (digits only; blank: 1 and 0). Text that is not a
+// number is an error naming its field, never a silent default. Pure: the route validates with AdjustmentSchema through this.
 import * as v from "valibot";
-import { AdjustmentSchema, MAX_MAGNITUDE, type Adjustment } from "./hydraulics";
-import { decimalField } from "../shared/decimal";
+import { AdjustmentSchema, MAX_DUTY_PUMPS, MAX_MAGNITUDE, MAX_STANDBY_PUMPS, type Adjustment } from "./hydraulics";
+import { countField, decimalField } from "../shared/decimal";
 import { fromChosen, type UnitChoice } from "../shared/units";
 
 export function readAdjustForm(form: FormData, sys: UnitChoice): { adjustment: Adjustment; error: null } | { adjustment: null; error: string } {
@@ -14,8 +14,9 @@ export function readAdjustForm(form: FormData, sys: UnitChoice): { adjustment: A
   const motor = decimalField(form.get("motorRating"), "motorRating", "the motor rating", errors) ?? 0;
   if (motor < 0) errors.motorRating ??= "The motor rating must be 0 or more (blank or 0: suggested).";
   const serviceFactor = decimalField(form.get("serviceFactor"), "serviceFactor", "the service factor", errors) ?? 1;
-  const dutyPumps = decimalField(form.get("dutyPumps"), "dutyPumps", "the number of duty pumps", errors) ?? 1;
-  const standbyPumps = decimalField(form.get("standbyPumps"), "standbyPumps", "the number of standby pumps", errors) ?? 0;
+  // Counts as digits only (shared/decimal.ts countField), to the schema's own limits: "1e0" or "2,0" were read as pumps.
+  const dutyPumps = countField(form.get("dutyPumps"), "dutyPumps", "the number of duty pumps", errors, MAX_DUTY_PUMPS, 1, 1) ?? 1;
+  const standbyPumps = countField(form.get("standbyPumps"), "standbyPumps", "the number of standby pumps", errors, MAX_STANDBY_PUMPS) ?? 0;
   const messages = Object.values(errors);
   if (messages.length) return { adjustment: null, error: messages.join(" ") };
   const adj = v.safeParse(AdjustmentSchema, {

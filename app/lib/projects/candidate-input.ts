@@ -3,18 +3,21 @@
 import * as v from "valibot";
 import { DEFAULT_IE_CLASS, IE_CLASSES, type PumpPoint } from "~/engine";
 
+/** Pumps of one arrangement: duty pumps 1 to MAX_DUTY_PUMPS, standby 0 to MAX_STANDBY_PUMPS (the form reads its counts to these). */
+export const MAX_DUTY_PUMPS = 8;
+export const MAX_STANDBY_PUMPS = 8;
 // Messages name the field and its range as the adjustment form shows it (the ratio in percent).
 const RATIO = "The ratio is 30 % to 120 % (blank: solve for the duty).";
-const DUTY = "The number of duty pumps is a whole number from 1 to 8.";
-const STANDBY = "The number of standby pumps is a whole number from 0 to 8.";
+const DUTY = `The number of duty pumps is a whole number from 1 to ${MAX_DUTY_PUMPS}.`;
+const STANDBY = `The number of standby pumps is a whole number from 0 to ${MAX_STANDBY_PUMPS}.`;
 const SERVICE_FACTOR = "The service factor is 1 to 1.5.";
 export const AdjustmentSchema = v.object({
   method: v.picklist(["none", "speed", "trim"]),
   /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁; null: solve it to hit the duty. */
   ratio: v.nullable(v.pipe(v.number(), v.finite(), v.minValue(0.3, RATIO), v.maxValue(1.2, RATIO))),
   arrangement: v.picklist(["single", "parallel", "series"]),
-  dutyPumps: v.pipe(v.number(), v.integer(DUTY), v.minValue(1, DUTY), v.maxValue(8, DUTY)),
-  standbyPumps: v.pipe(v.number(), v.integer(STANDBY), v.minValue(0, STANDBY), v.maxValue(8, STANDBY)),
+  dutyPumps: v.pipe(v.number(), v.integer(DUTY), v.minValue(1, DUTY), v.maxValue(MAX_DUTY_PUMPS, DUTY)),
+  standbyPumps: v.pipe(v.number(), v.integer(STANDBY), v.minValue(0, STANDBY), v.maxValue(MAX_STANDBY_PUMPS, STANDBY)),
   /** Motor rating W (0: not set) and service factor. */
   motorRating: v.pipe(v.number(), v.finite(), v.minValue(0), v.maxValue(1e9, "A motor rating above 1 GW? Check the unit.")),
   serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1, SERVICE_FACTOR), v.maxValue(1.5, SERVICE_FACTOR)),

@@ -1,7 +1,7 @@
 // The editor's load-profile, control and life-cycle fields ↔ the system document's `energy` part.
 // Percent in the form, fractions in the document; hours per year as typed. Pure (browser and server).
-import { decimalField } from "../shared/decimal";
-import { DEFAULT_ENERGY_SETTINGS, MAX_PROFILE_STEPS, type EnergySettings } from "./energy";
+import { countField, decimalField } from "../shared/decimal";
+import { DEFAULT_ENERGY_SETTINGS, MAX_LCC_YEARS, MAX_PROFILE_STEPS, MIN_LCC_YEARS, type EnergySettings } from "./energy";
 
 type FormLike = { get(name: string): FormDataEntryValue | null };
 
@@ -36,7 +36,8 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
   return {
     control,
     profile,
-    years: decimalField(f.get("energy.years"), "energy.years", "Years", errors) ?? base.years,
+    // A count, digits only (shared/decimal.ts countField): "1e1" or "15,0" were read as years. Blank keeps the stored years.
+    years: countField(f.get("energy.years"), "energy.years", "Years", errors, MAX_LCC_YEARS, base.years, MIN_LCC_YEARS) ?? base.years,
     escalation: pct("energy.escalation", "Tariff escalation", base.escalation),
     discountRate: pct("energy.discount", "Discount rate", base.discountRate),
   };

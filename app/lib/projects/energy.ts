@@ -28,6 +28,9 @@ const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMo
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
 
 export const MAX_PROFILE_STEPS = 8;
+/** Life-cycle years: a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS (the form reads its count to these). */
+export const MIN_LCC_YEARS = 1;
+export const MAX_LCC_YEARS = 50;
 
 export const DutyStepSchema = v.object({
   flowFraction: v.pipe(num("Flow fraction"), v.gtValue(0, "A step's flow must be above 0 %."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
@@ -40,7 +43,7 @@ export const EnergySettingsSchema = v.pipe(
     /** Null: the common-practice circulator profile over the system's operating hours. */
     profile: v.nullable(v.pipe(v.array(DutyStepSchema), v.minLength(1, "Give at least one step, or use the common-practice profile."), v.maxLength(MAX_PROFILE_STEPS, `At most ${MAX_PROFILE_STEPS} steps.`))),
     /** Life-cycle cost: years, tariff escalation and discount rate per year (fractions). */
-    years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(1, "At least 1 year."), v.maxValue(50, "At most 50 years.")),
+    years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(MIN_LCC_YEARS, `At least ${MIN_LCC_YEARS} year.`), v.maxValue(MAX_LCC_YEARS, `At most ${MAX_LCC_YEARS} years.`)),
     escalation: v.pipe(num("Tariff escalation"), v.minValue(-0.5, "Escalation at least −50 % a year."), v.maxValue(1, "Escalation at most 100 % a year.")),
     discountRate: v.pipe(num("Discount rate"), v.minValue(0, "Discount rate at least 0 %."), v.maxValue(1, "Discount rate at most 100 % a year.")),
   }),
@@ -171,6 +174,28 @@ export function candidateEnergy(
     }
   }
   return out;
+}
+
+/** A duty cycle as computed or frozen: its steps and the engine's warnings (frozen before warnings named their step: no `parameter`). */
+type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?: string | null; code?: string | null; message: string }[] };
+
+/** How a step that is not "ok" reads at the step: not met (the pump or the control cannot reach it) or not computed (no data). */
+export function stepVerdict(s: { status: string }): string {
+  if (s.status === "ok") return "";
+  return s.status === "no-power-data" ? "not computed" : "not met";
+}
+
+/** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
+export function stepWarnings(cycle: CycleNotes, i: number): string[] {
+  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => w.message);
+}
+
+/**
+ * The warnings about no single step (those of cycles frozen before warnings named their step included). The
+ * incomplete-cycle warning is left out: the totals say it with their "(incomplete: …)" mark.
+ */
+export function cycleWarnings(cycle: CycleNotes): string[] {
+  return (cycle.warnings ?? []).filter((w) => w.code !== "cycle-incomplete" && !/^profile\[\d+\]$/.test(w.parameter ?? "")).map((w) => w.message);
 }
 
 /**

@@ -23,7 +23,9 @@ import {
 import { candidateEnergy, type CandidateEnergy } from "./energy";
 import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
-import { editorInput, MAX_PROBLEMS_LISTED, problemLine, problemPlaces, readStoredInput, type InputProblem } from "./stored-input";
+import { editorInput, readStoredInput, type InputProblem } from "./stored-input";
+import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, type DocProblem } from "./stored-doc";
+import { adjustFormValues, readStoredAdjustment } from "./stored-adjustment";
 
 export const MAX_CANDIDATES = 6;
 const notFound = (what: string) => data(`No such ${what} in this workspace.`, { status: 404 });
@@ -235,27 +237,38 @@ export async function openCandidates(viewer: Viewer, systemId: number) {
   return all.filter((r) => candidateCurveOpen(viewer, { workspaceId: r.libraryWorkspaceId, visibility: r.libraryVisibility }));
 }
 
-export async function listCandidates(viewer: Viewer, systemId: number): Promise<CandidateView[]> {
+/**
+ * A candidate whose stored adjustment does not pass the schema (stored-adjustment.ts): never evaluated as published on one
+ * pump in its place. It is kept out of the chart, the comparison, the energy panel and selection; the system page lists it
+ * with its problems and the adjust form filled with the stored values (`form`, never computed with) to fix it, or removes it.
+ */
+export type CandidateNeedingReview = Omit<CandidateView, "adjustment" | "set"> & { count: number; problems: DocProblem[]; form: Adjustment };
+
+/** A system's candidates (`openCandidates`): those whose stored adjustment passes the schema, and those needing review. */
+export async function listCandidates(viewer: Viewer, systemId: number): Promise<{ readable: CandidateView[]; needsReview: CandidateNeedingReview[] }> {
   const s = await systemRecord(viewer, systemId);
   const rows = await openCandidates(viewer, s.id);
-  if (rows.length === 0) return [];
+  if (rows.length === 0) return { readable: [], needsReview: [] };
   const sets = await curvesOfRevisions([...new Set(rows.map((r) => r.revisionId))], rows.map((r) => r.c.curveSetId));
-  return rows
-    .map((r) => {
-      const set = sets.find((x) => x.id === r.c.curveSetId)!;
-      const adj = v.safeParse(AdjustmentSchema, JSON.parse(r.c.adjustmentJson));
-      return {
-        id: r.c.id,
-        curveSetId: r.c.curveSetId,
-        label: candidateLabel(set),
-        model: set.model,
-        library: r.libraryName,
-        adjustment: adj.success ? adj.output : DEFAULT_ADJUSTMENT,
-        set,
-        purchasePriceCents: r.c.purchasePriceCents ?? null,
-      };
-    })
-    .filter((c) => c.set);
+  const readable: CandidateView[] = [];
+  const needsReview: CandidateNeedingReview[] = [];
+  for (const r of rows) {
+    const set = sets.find((x) => x.id === r.c.curveSetId);
+    if (!set) continue;
+    const base = { id: r.c.id, curveSetId: r.c.curveSetId, label: candidateLabel(set), model: set.model, library: r.libraryName, purchasePriceCents: r.c.purchasePriceCents ?? null };
+    const adj = readStoredAdjustment(r.c.adjustmentJson);
+    if (adj.ok) readable.push({ ...base, adjustment: adj.adjustment, set });
+    else needsReview.push({ ...base, count: adj.problems.length, problems: adj.problems.slice(0, MAX_PROBLEMS_LISTED), form: adjustFormValues(adj.raw) });
+  }
+  return { readable, needsReview };
+}
+
+/** The refusal of anything computed from a candidate whose stored adjustment does not pass the schema (409, never the default adjustment). */
+export function storedAdjustmentRefusal(c: Pick<CandidateNeedingReview, "label" | "count" | "problems">) {
+  const detail =
+    `The stored adjustment of the candidate "${c.label}" does not pass the checks (${c.count} problem${c.count === 1 ? "" : "s"}: ${problemPlaces(c.problems)}), ` +
+    "so it is not evaluated, compared or selected. Open the system page to see what is wrong: apply its adjustment again, or remove it.";
+  return data({ detail, errors: c.problems.map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
 }
 
 export async function addCandidate(viewer: Viewer, systemId: number, curveSetId: number, adjustment: Adjustment = DEFAULT_ADJUSTMENT) {
@@ -316,7 +329,7 @@ export async function systemPage(viewer: Viewer, systemId: number) {
 }
 
 async function workbenchOf(viewer: Viewer, system: Awaited<ReturnType<typeof systemRecord>> & { input: SystemInput }) {
-  const cands = await listCandidates(viewer, system.id);
+  const { readable: cands, needsReview } = await listCandidates(viewer, system.id);
   const flowMax = flowMaxOf(system.input, candidatesFlowMax(cands));
   let evaluation: ReturnType<typeof evaluateSystem> | null = null;
   let systemError: string | null = null;
@@ -334,7 +347,7 @@ async function workbenchOf(viewer: Viewer, system: Awaited<ReturnType<typeof sys
       return { ...c, result: null, energy: null as CandidateEnergy | null, error: e instanceof Error ? e.message : String(e) };
     }
   });
-  return { system, evaluation, systemError, candidates: evaluated, flowMax };
+  return { system, evaluation, systemError, candidates: evaluated, needsReview, flowMax };
 }
 
 /** Duty-cycle energy and life-cycle cost of an evaluated candidate (app/lib/projects/energy.ts). */

@@ -1,10 +1,15 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./selections.server";
 import { toCsv } from "../shared/csv";
+import { cycleWarnings, stepVerdict, stepWarnings } from "./energy";
 
 const row = (xs: unknown[]) => xs;
 
-/** Three sections, each with its own header row: system curve points, pump curve as used, and figures. SI units named in every header. */
+/**
+ * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, the duty cycle
+ * step by step, the life-cycle cost year by year, and figures (the cycle's totals and life-cycle cost among them).
+ * SI units named in every header; money in the workspace's currency, named in the unit column.
+ */
 export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
   const lines: unknown[][] = [];
   lines.push(row(["# Dutymark selection export", `DM-${String(id).padStart(5, "0")}`, title]));
@@ -19,6 +24,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   lines.push([]);
   lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", "shaft_power_w", "npsh_margin_ratio", "no_operating_point_reason"]));
   for (const b of f.result.band ?? []) lines.push(row(["band", b.edge, b.flow, b.head, b.efficiency, b.shaftPower, b.npshMarginRatio, b.reason]));
+  energySections(f, lines);
   lines.push([]);
   lines.push(row(["section", "figure", "value", "unit"]));
   const fig = f.result.figures;
@@ -60,5 +66,68 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("library", f.pump.library.name, "");
   add("library_revision", f.pump.library.revision, "");
   add("model", f.pump.model, "");
+  energyFigures(f, add);
   return toCsv(lines, { precision: 10 });
+}
+
+/**
+ * The duty cycle step by step (a step not met or not computed says so, with the engine's message; the engine's warnings
+ * at the step they name) and the life-cycle cost year by year, as the report shows them. Nothing for a selection frozen
+ * before load profiles, or whose cycle could not be computed (the figures say why).
+ */
+function energySections(f: FrozenSelection, lines: unknown[][]) {
+  const cycle = f.energy?.cycle;
+  if (cycle) {
+    lines.push([]);
+    lines.push(row([
+      "section", "step", "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", "shaft_power_w",
+      "load_fraction", "motor_efficiency", "drive_efficiency", "electrical_input_w", "energy_kwh", "engine_status", "message", "warnings",
+    ]));
+    cycle.steps.forEach((st, i) =>
+      lines.push(row([
+        "duty_cycle", i + 1, st.flowFraction, st.hours, st.flow, st.head, stepVerdict(st) || "met", st.speedRatio, st.efficiency, st.shaftPower,
+        st.loadFraction, st.motorEfficiency, st.driveEfficiency, st.electricalPower, st.energyKWh, st.status, st.message, stepWarnings(cycle, i).join("; "),
+      ])),
+    );
+  }
+  const lcc = f.energy?.lcc;
+  if (lcc) {
+    const currency = currencyOf(f);
+    lines.push([]);
+    lines.push(row(["section", "year", `energy_cost_${currency}`, `present_value_${currency}`, `cumulative_present_value_${currency}`]));
+    lcc.yearly.forEach((y, i) => lines.push(row(["life_cycle_cost", y.year, y.energyCost, y.presentValue, lcc.cumulative[i + 1]])));
+  }
+}
+
+const currencyOf = (f: FrozenSelection) => f.result.figures?.motor?.currency || "currency";
+
+/** The duty cycle's totals and the life-cycle cost as figures, with what is missing from them. */
+function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, unit: string) => void) {
+  const e = f.energy;
+  if (!e) {
+    add("duty_cycle", "not frozen (selected before load profiles and life-cycle costs)", "");
+    return;
+  }
+  const currency = currencyOf(f);
+  add("cycle_control", e.controlLabel, "");
+  add("cycle_profile", e.profileLabel, "");
+  add("cycle_profile_source", e.profileSource, "");
+  add("cycle_error", e.cycleError, "");
+  const c = e.cycle;
+  if (c) {
+    const notMet = c.steps.filter((st) => st.status !== "ok" && st.hours > 0).length;
+    add("cycle_total_hours", c.totalHours, "h");
+    add("cycle_annual_energy_electrical", c.annualEnergyKWh, "kWh");
+    add("cycle_complete", c.complete, "");
+    add("cycle_steps_not_met", notMet, "");
+    if (!c.complete) add("cycle_incomplete_note", `incomplete: ${notMet} of ${c.steps.length} steps not met; their energy is missing from the total, the energy cost and the life-cycle cost`, "");
+    cycleWarnings(c).forEach((w, i) => add(`cycle_warning_${i + 1}`, w, ""));
+  }
+  add("cycle_energy_cost_per_year", e.annualCost, currency);
+  add("cost_missing", e.costMissing ?? null, "");
+  add("purchase_price", e.purchasePrice, currency);
+  add("lcc_total_present_value", e.lcc?.total ?? null, currency);
+  add("lcc_energy_present_value", e.lcc?.energyPresentValue ?? null, currency);
+  add("lcc_years", e.lcc ? e.lcc.yearly.length : null, "years");
+  add("lcc_source", e.lcc?.source ?? null, "");
 }

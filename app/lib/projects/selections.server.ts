@@ -4,10 +4,10 @@ import { and, desc, eq } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
 import { curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
-import type { LibraryCurveSet, Viewer } from "../libraries";
-import type { Adjustment, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
-import type { CandidateEnergy } from "./energy";
-import { ownCandidate, ownRow, systemWorkbench } from "./projects.server";
+import type { Viewer } from "../libraries";
+import { readStoredSelection, type FrozenSelection } from "./stored-selection";
+import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, type DocProblem } from "./stored-doc";
+import { ownCandidate, ownRow, storedAdjustmentRefusal, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
@@ -16,6 +16,8 @@ export const SELECTION_FORMAT = "dutymark-selection/1";
 export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
+  const unreadable = bench.needsReview.find((x) => x.id === c.id);
+  if (unreadable) throw storedAdjustmentRefusal(unreadable); // never frozen as published on one pump in its place
   const cand = bench.candidates.find((x) => x.id === c.id);
   if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
   const [rev] = await db()
@@ -64,23 +66,32 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
   return id;
 }
 
-export type FrozenSelection = {
-  format: string;
-  frozenAt: string;
-  project: { id: number; name: string };
-  system: { id: number; name: string; input: SystemInput };
-  systemCurve: ReturnType<typeof evaluateSystem> | null;
-  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: LibraryCurveSet["points"] };
-  adjustment: Adjustment;
-  result: ReturnType<typeof evaluateCandidate>;
-  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
-  energy?: CandidateEnergy | null;
-  flowMax: number;
-};
+export type { FrozenSelection } from "./stored-selection";
 
+/**
+ * The refusal of a selection whose frozen document cannot be read (409, never half-rendered): `detail` says so and names
+ * where it is wrong, `errors` what. The report page shows `detail`; the exports and the field pages' queue answer problem+json.
+ */
+export function storedSelectionRefusal(s: { id: number; title: string }, problems: readonly DocProblem[]) {
+  const n = problems.length;
+  const detail =
+    `The stored selection "${s.title}" (report DM-${String(s.id).padStart(5, "0")}) cannot be read: its frozen document does not pass the checks ` +
+    `(${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), so nothing of it is shown, exported or checked against — no numbers from a damaged record. ` +
+    "The record itself is kept as it is; select the pump again from its system to make a new report.";
+  return data({ detail, errors: problems.slice(0, MAX_PROBLEMS_LISTED).map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
+}
+
+/** A selection row's frozen document as stored, or the refusal (409) when it does not pass `FrozenSelectionSchema`. */
+export function frozenOf(s: { id: number; title: string; frozenJson: string }): FrozenSelection {
+  const r = readStoredSelection(s.frozenJson);
+  if (!r.ok) throw storedSelectionRefusal(s, r.problems);
+  return r.frozen;
+}
+
+/** The selection with its frozen document; refuses (409, `storedSelectionRefusal`) when that document cannot be read. */
 export async function getSelection(viewer: Viewer, selectionId: number) {
   const s = await ownRow(viewer, selections, selectionId, "selection");
-  return { ...s, frozen: JSON.parse(s.frozenJson) as FrozenSelection };
+  return { ...s, frozen: frozenOf(s) };
 }
 
 export async function listSelections(viewer: Viewer, filter: { projectId?: number; systemId?: number } = {}) {

@@ -3,34 +3,20 @@
 // text that is not JSON) is never replaced by the default system. The services refuse to compute with it
 // (`getSystem`: 409), lists mark it "needs review", and the system page names each problem in plain words
 // and offers the editor filled with the stored values (`editorInput`) so it can be fixed and saved. Pure.
-import * as v from "valibot";
 import { CONTROL_MODES, DEFAULT_FLOW_TOLERANCE, type Quantity } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS } from "./energy";
-import { qt } from "~/engine/quantityText";
 import { SystemInputSchema, type SystemInput } from "./system-input";
 import { fieldFor } from "./system-form";
+import { docPathLabel, readStoredDoc, type DocProblem, type DocWords } from "./stored-doc";
+
+export { MAX_PROBLEMS_LISTED, problemLine, problemPlaces } from "./stored-doc";
 
 /** One thing wrong with a stored input: where (`path`, dotted, and `label`, in words), what (`message`) and the value stored there. */
-export type InputProblem = { keys: (string | number)[]; path: string; label: string; message: string; stored: string | null };
+export type InputProblem = DocProblem;
 export type StoredInput = { ok: true; input: SystemInput } | { ok: false; raw: unknown; problems: InputProblem[] };
 
-/** At most this many problems are listed (a document with thousands of bad runs says "and N more"). */
-export const MAX_PROBLEMS_LISTED = 20;
-
-/** The stored document: its input when it passes the schema, else what is wrong with it (never a default in its place). */
-export function readStoredInput(json: string): StoredInput {
-  let raw: unknown;
-  try {
-    raw = JSON.parse(json);
-  } catch (e) {
-    const why = e instanceof Error ? e.message.slice(0, 120) : "unreadable";
-    return { ok: false, raw: undefined, problems: [{ keys: [], path: "", label: "the stored document", message: `Is not valid JSON, so none of its values can be read (${why}).`, stored: null }] };
-  }
-  const r = v.safeParse(SystemInputSchema, raw);
-  return r.success ? { ok: true, input: r.output } : { ok: false, raw, problems: r.issues.map(problemOf) };
-}
-
-const LABELS: Record<string, string> = {
+/** The system input's keys in words. */
+export const INPUT_LABELS: Record<string, string> = {
   fluid: "fluid", kind: "kind", name: "name", density: "density", dynamicViscosity: "viscosity", vaporPressure: "vapour pressure",
   temperatureC: "temperature", mode: "system kind (open or closed loop)", staticLow: "static head (low level)", staticHigh: "static head (high level)",
   pressureDifference: "pressure difference", controlHead: "control head", suctionSurfacePressure: "suction surface pressure",
@@ -43,76 +29,23 @@ const LABELS: Record<string, string> = {
   count: "count", extraK: "extra K",
 };
 /** A list's item in words: `runs` 1 → "pipe run 2". */
-const ITEM: Record<string, string> = { runs: "pipe run", fittings: "fitting", profile: "step" };
+export const INPUT_ITEMS: Record<string, string> = { runs: "pipe run", fittings: "fitting", profile: "step" };
 /** The quantity of a number stored under this key (its unit on the page); others are plain numbers. */
-const QUANTITY: Record<string, Quantity> = {
+export const INPUT_QUANTITIES: Record<string, Quantity> = {
   temperatureC: "temperature", staticLow: "head", staticHigh: "head", controlHead: "head", suctionStaticHead: "head", head: "head",
   pressureDifference: "pressure", suctionSurfacePressure: "pressure", vaporPressure: "pressure", flow: "flow", flowMax: "flow",
   diameter: "diameter", roughness: "roughness", agedRoughness: "roughness", length: "length", density: "density", dynamicViscosity: "dynamicViscosity",
 };
+const WORDS: DocWords = { whole: "the stored document", labels: INPUT_LABELS, items: INPUT_ITEMS, quantities: INPUT_QUANTITIES };
+
+/** The stored document: its input when it passes the schema, else what is wrong with it (never a default in its place). */
+export function readStoredInput(json: string): StoredInput {
+  const r = readStoredDoc(json, SystemInputSchema, WORDS);
+  return r.ok ? { ok: true, input: r.value } : { ok: false, raw: r.raw, problems: r.problems };
+}
 
 /** Where in the document, in words: ["runs", 1, "diameter"] → "pipe run 2, inner diameter". */
-export function pathLabel(keys: readonly (string | number)[]): string {
-  const words: string[] = [];
-  keys.forEach((k, i) => {
-    if (typeof k === "number") {
-      const item = ITEM[String(keys[i - 1])] ?? "item";
-      if (words.length && ITEM[String(keys[i - 1])]) words.pop();
-      words.push(`${item} ${k + 1}`);
-    } else words.push(LABELS[k] ?? k);
-  });
-  return words.length ? words.join(", ") : "the stored document";
-}
-
-/** A valibot limit (">=0", "<=500") in words. */
-function limitWords(expected: string): string {
-  const m = /^(>=|<=|>|<|!)(.*)$/.exec(expected);
-  if (!m) return expected;
-  return `${{ ">=": "at least", "<=": "at most", ">": "more than", "<": "less than", "!": "other than" }[m[1]]} ${m[2]}`;
-}
-/** A valibot type ("number", "Array", `("open" | "closed-loop")`) in words. */
-function typeWords(expected: string): string {
-  const one = (t: string) => ({ number: "a number", string: "text", boolean: "true or false", Array: "a list", Object: "a group of values", null: "empty (null)" })[t] ?? t;
-  const parts = expected.replace(/^\((.*)\)$/, "$1").split(" | ");
-  return parts.length > 2 ? `one of ${parts.map(one).join(", ")}` : parts.map(one).join(" or ");
-}
-
-/** The value that was stored, for the reader: numbers of a known quantity as a token (rendered in the reader's units). */
-function storedText(input: unknown, key: string | number | undefined): string | null {
-  if (input === undefined) return null;
-  if (typeof input === "number") {
-    if (!Number.isFinite(input)) return "a number too large to hold";
-    const q = typeof key === "string" ? QUANTITY[key] : undefined;
-    return q ? qt(q, input) : String(input);
-  }
-  if (typeof input === "string") return JSON.stringify(input.length > 40 ? `${input.slice(0, 40)}…` : input);
-  if (Array.isArray(input)) return `a list of ${input.length}`;
-  if (input === null) return "empty (null)";
-  return typeof input === "object" ? "a group of values" : String(input);
-}
-
-function problemOf(issue: v.BaseIssue<unknown>): InputProblem {
-  const keys = (issue.path ?? []).map((p) => p.key as string | number);
-  const last = keys[keys.length - 1];
-  const base = { keys, path: keys.join("."), label: pathLabel(keys) };
-  if (issue.kind === "schema" && issue.received === "undefined") return { ...base, message: "Missing from the stored document.", stored: null };
-  const stored = storedText(issue.input, last);
-  // Our schema's own messages are sentences already; valibot's defaults ("Invalid type: Expected …") are rewritten.
-  if (!issue.message.startsWith("Invalid ")) return { ...base, message: issue.message, stored };
-  if (issue.kind === "schema") return { ...base, message: `Should be ${typeWords(issue.expected ?? "")}.`, stored };
-  const unit = issue.type.endsWith("_length") ? (typeof issue.input === "string" ? " characters long" : " items") : "";
-  return { ...base, message: `Should be ${limitWords(issue.expected ?? "")}${unit}.`, stored };
-}
-
-/** The places of the problems, in words, for a refusal or a list: "temperature; pipe run 2, inner diameter and 3 more". */
-export function problemPlaces(problems: readonly InputProblem[], max = 6): string {
-  const labels = [...new Set(problems.map((p) => p.label))];
-  const shown = labels.slice(0, max).join("; ");
-  return labels.length > max ? `${shown} and ${labels.length - max} more` : shown;
-}
-
-/** One line per problem (for the API's `errors` and tests): "pipe run 2, inner diameter: Inner diameter must be greater than zero. (stored: ⟦diameter|-0.1⟧)". */
-export const problemLine = (p: InputProblem) => `${p.label}: ${p.message}${p.stored ? ` (stored: ${p.stored})` : ""}`;
+export const pathLabel = (keys: readonly (string | number)[]): string => docPathLabel(keys, WORDS);
 
 /** The problems as the editor's field errors, each under the form field of its path (as `readSystemForm` places its own). */
 export function problemFieldErrors(problems: readonly InputProblem[]): Record<string, string> {

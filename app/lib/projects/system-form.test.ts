@@ -47,7 +47,7 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
     const energy = { "energy.control": "fixed-speed", "energy.profileKind": "user", "energy.step.0.pct": "100", "energy.step.0.hours": "1,000" };
     const r = read(energy, SI_UNITS);
     expect(r.errors["energy.step.0.hours"]).toMatch(/ambiguous.*write 1000, or 1\./);
-    expect(read({ ...energy, "energy.step.0.hours": "1000", "energy.years": "abc" }, SI_UNITS).errors["energy.years"]).toBe("Years must be a number.");
+    expect(read({ ...energy, "energy.step.0.hours": "1000", "energy.years": "abc" }, SI_UNITS).errors["energy.years"]).toBe("Years must be a whole number from 1 to 50, written in digits: “abc” is not.");
     expect(read({ ...energy, "energy.step.0.hours": "1000" }, SI_UNITS).input!.energy!.profile).toEqual([{ flowFraction: 1, hours: 1000 }]);
   });
 });
@@ -97,5 +97,17 @@ describe("readSystemForm: counts are whole numbers typed in digits (product rule
     }
     expect(read({ runCount: "1" }).input!.runs).toHaveLength(1);
     expect(read({ runCount: "" }).input!.runs).toHaveLength(0); // blank: no runs, as before
+  });
+  it("life-cycle years the same way, from 1 to 50 (EnergySettingsSchema's limits, energy.ts): 1e1, 15,0 or 15.0 are errors, never 10 or 15 years", () => {
+    const energy = { "energy.control": "fixed-speed", "energy.profileKind": "common" };
+    for (const typed of ["1e1", "15,0", "15.0", "0x0F", "+15", "-1", "Infinity", "51"]) {
+      const r = read({ ...energy, "energy.years": typed }, SI_UNITS);
+      expect(r.input, typed).toBeNull();
+      expect(r.errors["energy.years"], typed).toBe(`Years must be a whole number from 1 to 50, written in digits: “${typed}” is not.`);
+    }
+    expect(read({ ...energy, "energy.years": "0" }, SI_UNITS).errors["energy.years"]).toBe("Years must be at least 1 (a whole number from 1 to 50): “0” is too few.");
+    expect(read({ ...energy, "energy.years": " 25 " }, SI_UNITS).input!.energy!.years).toBe(25);
+    expect(read({ ...energy, "energy.years": "50" }, SI_UNITS).input!.energy!.years).toBe(50);
+    expect(read({ ...energy, "energy.years": "" }, SI_UNITS).input!.energy!.years).toBe(15); // blank: the default 15 years (energy.ts DEFAULT_ENERGY_SETTINGS)
   });
 });

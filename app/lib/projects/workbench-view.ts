@@ -1,24 +1,36 @@
 // What the system page and its live preview show: the workbench reduced to plain JSON.
 import type { CandidateEvaluation, SystemEvaluation, Adjustment } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
+import type { DocProblem } from "./stored-doc";
+
+type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
+/**
+ * A candidate whose stored adjustment does not pass the checks (stored-adjustment.ts): its problems (the first
+ * MAX_PROBLEMS_LISTED of `count`) and the stored values for the adjust form (`form`); never evaluated or compared.
+ */
+export type CandidateReviewView = { id: number; curveSetId: number; label: string; library: string; count: number; problems: DocProblem[]; form: Adjustment };
 
 export type WorkbenchView = {
   evaluation: SystemEvaluation | null;
   systemError: string | null;
   flowMax: number;
-  candidates: { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null }[];
+  candidates: EvaluatedCandidate[];
+  /** Candidates left out of the chart, the comparison and selection until their adjustment is set again (or they are removed). */
+  needsReview: CandidateReviewView[];
 };
 
 export function workbenchView(bench: {
   evaluation: SystemEvaluation | null;
   systemError: string | null;
   flowMax: number;
-  candidates: { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null }[];
+  candidates: EvaluatedCandidate[];
+  needsReview: CandidateReviewView[];
 }): WorkbenchView {
   return {
     evaluation: bench.evaluation,
     systemError: bench.systemError,
     flowMax: bench.flowMax,
     candidates: bench.candidates.map((c) => ({ id: c.id, curveSetId: c.curveSetId, label: c.label, library: c.library, adjustment: c.adjustment, result: c.result, error: c.error, energy: c.energy ?? null })),
+    needsReview: bench.needsReview.map((c) => ({ id: c.id, curveSetId: c.curveSetId, label: c.label, library: c.library, count: c.count, problems: c.problems, form: c.form })),
   };
 }

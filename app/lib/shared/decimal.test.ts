@@ -126,6 +126,16 @@ describe("messages", () => {
     expect(countField(new Blob(["3"]), "f", "the count", errors, 20)).toBeNull(); // a file is no count
     expect(errors.f).toBe("The count must be a whole number from 0 to 20, written in digits.");
   });
+  it("countField with a minimum (duty pumps 1 to 8): below it says so with the range; the range is named in every other message; blank is still the blank value", () => {
+    const errors: Record<string, string> = {};
+    expect(countField("1", "d", "the number of duty pumps", errors, 8, 1, 1)).toBe(1);
+    expect(countField("", "d", "the number of duty pumps", errors, 8, 1, 1)).toBe(1);
+    expect(errors).toEqual({});
+    expect(countField("0", "d", "the number of duty pumps", errors, 8, 1, 1)).toBeNull();
+    expect(errors.d).toBe("The number of duty pumps must be at least 1 (a whole number from 1 to 8): “0” is too few.");
+    expect(countField("1e0", "e", "the number of duty pumps", errors, 8, 1, 1)).toBeNull();
+    expect(errors.e).toBe("The number of duty pumps must be a whole number from 1 to 8, written in digits: “1e0” is not.");
+  });
   it("decimalOrNaN (filters: junk means no filter): 1,500 is NaN, never 1.5", () => {
     expect(decimalOrNaN("1,500")).toBeNaN();
     expect(decimalOrNaN("0x10")).toBeNaN();

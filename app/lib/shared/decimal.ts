@@ -19,8 +19,9 @@
 //  - one exception, asked for by a field (`spaceGroups`, the purchase price only, as it was before this
 //    reader): thousands grouped by spaces in threes (2 450,50 and 12 500, the ISO 80000-1 way: a space
 //    is never a decimal separator, so it is not ambiguous); the comma or point after them is the decimal.
-//  - counts (fittings of a pipe run, the editor's run count: `countField`) are stricter: decimal digits only,
-//    0 to the field's maximum; a sign, point, comma, exponent or prefix is an error, never rounded or dropped.
+//  - counts (fittings of a pipe run, the editor's run count, duty and standby pumps, life-cycle years: `countField`) are
+//    stricter: decimal digits only, the field's minimum (0 unless said) to its maximum; a sign, point, comma, exponent or
+//    prefix is an error, never rounded or dropped.
 
 /** One number with a decimal point (12, 12.5, .5, 12., -3, 1e-3). Also the CSV importer's dot-decimal cell. */
 export const DOT_DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
@@ -115,16 +116,24 @@ export function decimalField(raw: unknown, key: string, label: string, errors: R
 const COUNT_DIGITS = /^\d+$/;
 
 /**
- * One count field (fittings of a pipe run, the editor's run count) read into `errors`: a whole number from 0 to `max`
- * written in decimal digits, whitespace around it trimmed as for every field; blank (or a missing field) is `blank`.
- * Anything else — 0x10, 1e1, 2.5, 2,0, -1, +3, Infinity, past `max` — is an error under `key` that names the field,
- * its range and what was typed (never a silent 0 or a rounded count), and null.
+ * One count field (fittings of a pipe run, the editor's run count, duty and standby pumps, life-cycle years) read into
+ * `errors`: a whole number from `min` (default 0) to `max` written in decimal digits, whitespace around it trimmed as for
+ * every field; blank (or a missing field) is `blank`. Anything else — 0x10, 1e1, 2.5, 2,0, -1, +3, Infinity, past `max`,
+ * below `min` — is an error under `key` that names the field, its range and what was typed (never a silent 0 or a
+ * rounded or clamped count), and null. The form's maxima and minima come from its schema's limits.
  */
-export function countField(raw: unknown, key: string, label: string, errors: Record<string, string>, max: number, blank = 0): number | null {
+export function countField(raw: unknown, key: string, label: string, errors: Record<string, string>, max: number, blank = 0, min = 0): number | null {
   if (raw == null) return blank;
   const s = typeof raw === "string" ? raw.trim() : null;
   if (s === "") return blank;
-  if (s !== null && COUNT_DIGITS.test(s) && Number(s) <= max) return Number(s);
-  errors[key] ??= `${capital(label)} must be a whole number from 0 to ${max}, written in digits${s === null ? "." : `: ${quoted(s)} is not.`}`;
+  if (s !== null && COUNT_DIGITS.test(s)) {
+    const n = Number(s);
+    if (n >= min && n <= max) return n;
+    if (n < min) {
+      errors[key] ??= `${capital(label)} must be at least ${min} (a whole number from ${min} to ${max}): ${quoted(s)} is too few.`;
+      return null;
+    }
+  }
+  errors[key] ??= `${capital(label)} must be a whole number from ${min} to ${max}, written in digits${s === null ? "." : `: ${quoted(s)} is not.`}`;
   return null;
 }

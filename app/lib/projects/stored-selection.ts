@@ -1,0 +1,145 @@
+// A selection's frozen document (selections.frozen_json) read honestly: parsed and checked on every read against
+// `FrozenSelectionSchema` — the parts the report, the exports and the field pages read, with their types (and the system
+// inputs and adjustment against their own schemas, which the field check computes with). A document that fails (edited in
+// the database, cut off, not JSON) is named, never half-rendered: the services refuse it (409, `storedSelectionRefusal`
+// in selections.server.ts). Extra keys are allowed and kept: a document that passes is handed on as stored, so the JSON
+// export and the field check's fingerprint are what was frozen. Pure.
+import * as v from "valibot";
+import type { Quantity } from "~/engine";
+import { VERDICT_STATUSES } from "~/engine";
+import { AdjustmentSchema } from "./candidate-input";
+import { SystemInputSchema } from "./system-input";
+import { INPUT_ITEMS, INPUT_LABELS, INPUT_QUANTITIES } from "./stored-input";
+import { readStoredDoc, type DocProblem, type DocWords } from "./stored-doc";
+import type { Adjustment, CurvePointsIn, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
+import type { CandidateEnergy } from "./energy";
+
+/** A selection as frozen (selections.server.ts `selectCandidate`): everything its report, exports and field checks read. */
+export type FrozenSelection = {
+  format: string;
+  frozenAt: string;
+  project: { id: number; name: string };
+  system: { id: number; name: string; input: SystemInput };
+  systemCurve: ReturnType<typeof evaluateSystem> | null;
+  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: CurvePointsIn };
+  adjustment: Adjustment;
+  result: ReturnType<typeof evaluateCandidate>;
+  /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
+  energy?: CandidateEnergy | null;
+  flowMax: number;
+};
+
+const num = v.pipe(v.number(), v.finite());
+/** A number the engine may not have had (JSON writes NaN as null): null or a finite number. */
+const numOrNull = v.nullable(num);
+const nullishNum = v.nullish(num);
+const str = v.string();
+const strings = v.array(str);
+const obj = v.looseObject;
+
+const CurvePoint = obj({ flow: num, head: num, efficiency: nullishNum, power: nullishNum, npshr: nullishNum });
+const SystemCurve = obj({
+  flows: v.array(num),
+  design: v.array(numOrNull),
+  low: v.array(numOrNull),
+  high: v.array(numOrNull),
+  pressure: v.array(numOrNull),
+  dutyFlow: num,
+  runs: v.array(obj({ name: str, side: str, velocity: num, reynolds: num, frictionFactor: num, regime: str, headLoss: num, warnings: strings })),
+  warnings: strings,
+  fluid: obj({ density: num, kinematicViscosity: num, vaporPressure: num }),
+  npsha: v.array(obj({ flow: num, y: numOrNull })),
+  dutyCheck: v.nullish(obj({ message: str, governs: str, differs: v.boolean() })),
+});
+const Motor = obj({
+  rating: nullishNum, ratingSource: v.nullish(str), suggestedRating: nullishNum, suggestionBasis: v.optional(str), efficiency: nullishNum, efficiencySource: v.optional(str),
+  ieClass: v.optional(str), driveEfficiency: nullishNum, driveSource: v.nullish(str), electricalPower: nullishNum, annualEnergyKWh: nullishNum, annualCost: nullishNum, currency: v.optional(str),
+});
+const Figures = obj({
+  efficiency: nullishNum, hydraulicPower: nullishNum, shaftPower: nullishNum, bepFlow: nullishNum, bepHead: nullishNum, bepRatio: nullishNum, inPor: v.nullish(v.boolean()),
+  npshAvailable: nullishNum, npshRequired: nullishNum, npshMarginRatio: nullishNum, npshStatus: v.nullish(str), maxPower: nullishNum, motorLimit: nullishNum,
+  nonOverloading: v.nullish(v.boolean()), motorLoadAtDuty: nullishNum, annualEnergyKWh: nullishNum, annualCost: nullishNum, motor: v.optional(Motor),
+});
+const Result = obj({
+  status: str,
+  message: str,
+  ratio: num,
+  ratioNote: v.nullish(str),
+  speed: nullishNum,
+  diameter: nullishNum,
+  curve: v.array(CurvePoint),
+  operating: v.nullable(obj({ flow: num, head: num })),
+  allIntersections: v.optional(v.array(obj({ flow: num, head: num }))),
+  figures: v.nullable(Figures),
+  por: v.nullish(obj({ minFlow: num, maxFlow: num })),
+  band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, reason: v.nullable(str) }))),
+  npsh: v.optional(obj({ status: str, marginRatio: numOrNull, at: v.nullable(str), rule: str })),
+  /** Absent in selections frozen before verdicts; null without a duty. */
+  verdict: v.optional(v.nullable(obj({ status: v.picklist(VERDICT_STATUSES), rule: str, reasons: strings, edge: v.nullish(str) }))),
+  warnings: strings,
+});
+const Step = obj({
+  flowFraction: num, hours: num, flow: num, head: numOrNull, speedRatio: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, loadFraction: nullishNum,
+  motorEfficiency: numOrNull, driveEfficiency: numOrNull, electricalPower: numOrNull, energyKWh: numOrNull, status: str, message: str,
+});
+const Energy = obj({
+  control: str,
+  controlLabel: str,
+  profileSource: str,
+  profileLabel: str,
+  cycle: v.nullable(obj({ mode: v.optional(str), steps: v.array(Step), totalHours: num, annualEnergyKWh: num, complete: v.boolean(), setpointHead: nullishNum, warnings: v.optional(v.array(obj({ message: str, parameter: v.nullish(str), code: v.nullish(str) }))) })),
+  cycleError: v.nullable(str),
+  annualCost: numOrNull,
+  purchasePrice: numOrNull,
+  lcc: v.nullable(obj({ purchase: num, purchaseGiven: v.boolean(), yearly: v.array(obj({ year: num, energyCost: num, presentValue: num })), energyPresentValue: num, total: num, cumulative: v.array(num), source: str })),
+  costMissing: v.nullish(str),
+  assumptions: strings,
+});
+
+/** The frozen document as the report, the exports and the field pages read it. */
+export const FrozenSelectionSchema = obj({
+  format: str,
+  frozenAt: v.pipe(str, v.isoTimestamp("The date it was frozen is not a date and time.")),
+  project: obj({ id: num, name: str }),
+  system: obj({ id: num, name: str, input: SystemInputSchema }),
+  systemCurve: v.nullable(SystemCurve),
+  pump: obj({
+    label: str, model: str, type: str, size: str,
+    library: obj({ id: v.optional(num), name: v.optional(str), revision: v.optional(num), revisionId: v.optional(num) }),
+    curveSetId: num, speed: numOrNull, impellerDiameter: numOrNull,
+    points: v.pipe(v.array(CurvePoint), v.minLength(2, "A pump curve needs at least 2 points.")),
+  }),
+  adjustment: AdjustmentSchema,
+  result: Result,
+  /** Absent in selections frozen before load profiles. */
+  energy: v.nullish(Energy),
+  flowMax: num,
+});
+
+const LABELS: Record<string, string> = {
+  ...INPUT_LABELS,
+  format: "format", frozenAt: "date frozen", project: "project", system: "system", input: "inputs", systemCurve: "system curve", pump: "pump",
+  label: "label", model: "model", type: "type", size: "size", library: "library", revision: "revision", curveSetId: "curve id", speed: "speed",
+  impellerDiameter: "impeller diameter", points: "curve points", adjustment: "adjustment", method: "adjusted by", ratio: "ratio", arrangement: "pumps",
+  dutyPumps: "duty pumps", standbyPumps: "standby pumps", motorRating: "motor rating", serviceFactor: "service factor", ieClass: "motor efficiency class",
+  result: "result", curve: "curve as used", operating: "operating point", figures: "figures at the operating point", band: "band", verdict: "verdict",
+  reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
+  flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
+  speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input",
+  energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
+};
+// An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
+const ITEMS: Record<string, string> = {
+  ...INPUT_ITEMS, points: "curve point", curve: "curve as used, point", band: "band edge", steps: "step", reasons: "reason", yearly: "year",
+  flows: "flows, point", design: "design curve, point", low: "low-level curve, point", high: "high-level curve, point", npsha: "NPSH available, point",
+};
+const QUANTITIES: Record<string, Quantity> = { ...INPUT_QUANTITIES, motorRating: "power", impellerDiameter: "diameter" };
+const WORDS: DocWords = { whole: "the frozen selection", labels: LABELS, items: ITEMS, quantities: QUANTITIES };
+
+export type StoredSelection = { ok: true; frozen: FrozenSelection } | { ok: false; problems: DocProblem[] };
+
+/** The frozen document as stored when it passes `FrozenSelectionSchema`, else what is wrong with it. */
+export function readStoredSelection(json: string): StoredSelection {
+  const r = readStoredDoc(json, FrozenSelectionSchema, WORDS);
+  return r.ok ? { ok: true, frozen: r.raw as FrozenSelection } : { ok: false, problems: r.problems };
+}
