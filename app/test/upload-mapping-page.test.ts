@@ -43,3 +43,18 @@ describe("mapping page: a header unit the field does not take", () => {
     expect(html).toContain("“Head (kPa)” gives the unit “kPa”, which the importer does not read for head (it reads m, ft)"); // source: refusalMessage
   });
 });
+
+// P1 is the motor's electrical input, P2 the pump's shaft power (common practice in pump data sheets): a P1 column is left
+// out, the row says so beside its field, and the problems list carries the warning (edge hunt of 2026-12-04).
+describe("mapping page: a column of electrical input power (P1)", () => {
+  const html = render("Model,Speed rpm,Flow m3/h,Head m,P1 kW\nA,2900,0,20,1.0\nA,2900,10,19,1.2\nA,2900,20,17,1.4\n");
+  it("“P1 kW” means “— ignore —”, not shaft power, and the row says why", () => {
+    expect(selected(selectOf(html, "Meaning of P1 kW"))).toBe("ignore"); // source: common practice (P1 is not shaft power)
+    expect(html).toMatch(/data-testid="input-power">electrical input power \(P1\), not the shaft power \(P2\) the importer reads: (?:<!-- -->)?left out/); // source: importer rule (the row names the reason)
+  });
+  it("the problems list warns that the file then has no power figures", () => {
+    expect(html).toContain("“P1 kW” is left unmapped: its header names the motor&#x27;s electrical input power (P1)"); // source: inputPowerMessage
+    expect(html).toContain("no shaft power (P2) or pump efficiency column"); // source: same
+    expect(html).toContain("▲ "); // source: a warning, not an error (the page marks warnings ▲)
+  });
+});

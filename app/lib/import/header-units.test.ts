@@ -44,6 +44,52 @@ describe("header units in whole files", () => {
     expect(a.result.curveSets[0].points.every((p) => p.npshr === undefined && p.efficiency === undefined)).toBe(true); // source: same
   });
 
+  // P1 is the motor's electrical input and P2 the pump's shaft power (common practice in pump data sheets); the importer's
+  // power is shaft power, so a P1 column is never read as it (edge hunt of 2026-12-04: "P1 kW" became shaft power).
+  const p1Warning = (a: ReturnType<typeof analyseCsv>) => a.result.problems.filter((p) => p.code === "mapping" && p.severity === "warning");
+  it("a P1-only file imports with no power column and a warning naming the header", () => {
+    const a = analyseCsv(file("Speed rpm,Flow m3/h,Head m,P1 kW", "2900", ["0,20,1.0", "10,19,1.2", "20,17,1.4"]));
+    expect(a.mapping.columns.map((c) => c.field)).toEqual(["model", "speed", "flow", "head", "ignore"]); // source: common practice (P1 is not shaft power)
+    expect(p1Warning(a).map((p) => [p.row, p.column])).toEqual([[1, "P1 kW"]]); // source: importer rule (one warning on the header line)
+    expect(p1Warning(a)[0].reason).toContain("“P1 kW” is left unmapped: its header names the motor's electrical input power (P1)"); // source: importer rule (names the header)
+    expect(p1Warning(a)[0].reason).toContain("Dutymark's power is the pump's shaft power (P2)"); // source: importer rule (says what power means)
+    expect(p1Warning(a)[0].reason).toContain("no shaft power (P2) or pump efficiency column"); // source: engine (shaftPowerAt needs power or efficiency)
+    expect(a.result.problems.filter((p) => p.severity === "error")).toEqual([]); // source: a warning, not an error: the curves import
+    expect(a.result.curveSets.map((c) => c.ok)).toEqual([true]); // source: hand-written clean file
+    expect(a.result.curveSets[0].points.every((p) => p.power === undefined)).toBe(true); // source: no power column mapped
+  });
+
+  it("with a pump efficiency column, the warning says shaft power comes from it", () => {
+    const a = analyseCsv(file("Speed rpm,Flow m3/h,Head m,Eff %,Input power (kW)", "2900", ["0,20,0,1.0", "10,19,55,1.2", "20,17,70,1.4"]));
+    expect(a.mapping.columns[5].field).toBe("ignore"); // source: common practice (input power is P1)
+    expect(p1Warning(a).map((p) => p.column)).toEqual(["Input power (kW)"]); // source: importer rule
+    expect(p1Warning(a)[0].reason).toContain("worked out from the pump efficiency column “Eff %” instead (P2 = ρ·g·Q·H / η)"); // source: definition of pump efficiency
+  });
+
+  it.each([
+    ["P1 kW,P2 kW", "P2 kW"], // source: common practice (P2 is shaft power)
+    ["P2 kW,P1 kW", "P2 kW"], // source: same, other order
+    ["Input power (kW),Shaft power (kW)", "Shaft power (kW)"], // source: same (was: the first, the input power, mapped)
+    ["Motor kW,Absorbed power (kW)", "Absorbed power (kW)"], // source: common practice (absorbed power is P2)
+  ])("%s: the shaft power column “%s” is mapped, the input power column left out without a warning", (powers, shaft) => {
+    // Input power 1.0/1.2/1.4 kW and shaft power 0.5/0.6/0.7 kW (invented), in the header's order.
+    const rows = [["0,20", "1.0", "0.5"], ["10,19", "1.2", "0.6"], ["20,17", "1.4", "0.7"]];
+    const a = analyseCsv(file(`Speed rpm,Flow m3/h,Head m,${powers}`, "2900", rows.map(([qh, p1, p2]) => (powers.startsWith(shaft) ? `${qh},${p2},${p1}` : `${qh},${p1},${p2}`))));
+    expect(a.mapping.columns.filter((c) => c.field === "power").map((c) => c.header)).toEqual([shaft]); // source: see the row
+    expect(a.result.problems).toEqual([]); // source: hand-written clean file (P2 given, so nothing to warn about)
+    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([500, 600, 700]); // source: the P2 column's 0.5, 0.6, 0.7 kW (SI prefixes)
+  });
+
+  it("a P1 column mapped to power by hand is read as the user says, with a warning", () => {
+    const text = file("Speed rpm,Flow m3/h,Head m,P1 kW", "2900", ["0,20,1.0", "10,19,1.2", "20,17,1.4"]);
+    const m = analyseCsv(text).suggestedMapping;
+    const byHand: Mapping = { ...m, columns: m.columns.map((c) => (c.index === 4 ? { ...c, field: "power" as const, unit: "kW" as const, unitSource: "user" as const } : c)) };
+    const a = analyseCsv(text, byHand);
+    expect(p1Warning(a).map((p) => p.column)).toEqual(["P1 kW"]); // source: importer rule (a saved or hand-made mapping is warned too)
+    expect(p1Warning(a)[0].reason).toContain("“P1 kW” is mapped to shaft power, but its header names the motor's electrical input power (P1)"); // source: same
+    expect(a.result.curveSets[0].points[1].power).toBe(1200); // source: the user's mapping (1.2 kW)
+  });
+
   it("a unit the user chose clears the error; a default unit or one chosen for another header does not", () => {
     const text = file("Speed rpm,Flow m3/h,Head (kPa)", "2900", ["0,20", "10,19", "20,17"]);
     const m = analyseCsv(text).suggestedMapping;

@@ -7,6 +7,7 @@ import * as v from "valibot";
 import { parseNumber } from "./numbers";
 import type { SourceRow } from "./parse";
 import type { Problem } from "./types";
+import { inputPowerMessage } from "./input-power";
 import {
   DIAMETER_UNITS,
   EFFICIENCY_UNITS,
@@ -17,6 +18,7 @@ import {
   POWER_UNITS,
   SPEED_UNITS,
   guessHeader,
+  headerNamesInputPower,
   headerUnitRefusal,
   refusalMessage,
   unitAllowed,
@@ -154,7 +156,8 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
     if (textCol) textCol.field = "model";
   }
 
-  // One column per field; later repeats are left for the user (ignored). P2 (shaft) wins over P1 (input).
+  // One column per field; later repeats are left for the user (ignored). A P1 (electrical input) column is never
+  // guessed as power (input-power.ts), so a P2 column is the power column wherever it stands.
   // Columns of wide blocks are kept as they are: two blocks with the same qualifier are shown to the
   // user by checkMapping rather than silently dropped.
   const seen = new Map<string, MappedColumn>();
@@ -168,7 +171,7 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
     }
     // A column whose header unit can be read wins over one whose unit word is refused ("Head (m)" over "Head (kPa)").
     const readable = headerUnitRefusal(prev.header, prev.field) !== null && headerUnitRefusal(c.header, c.field) === null;
-    if (readable || (c.field === "power" && /\bp\s*2\b/i.test(c.header) && /\bp\s*1\b/i.test(prev.header))) {
+    if (readable) {
       prev.field = "ignore";
       prev.unit = null;
       prev.unitSource = undefined;
@@ -243,6 +246,15 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
     if (refused) p(refusalMessage(h, refused), h);
   }
   const used = mapping.columns.filter((c) => c.field !== "ignore" && c.field !== "notes");
+  // A header naming the motor's electrical input power (P1) is not shaft power: say so when it is mapped to power,
+  // and when it was left out of a file that then has no power column (with or without a pump efficiency column).
+  const efficiency = used.find((c) => c.field === "efficiency")?.header ?? null;
+  const hasPower = used.some((c) => c.field === "power");
+  headers.forEach((h, i) => {
+    const field = mapping.columns.find((c) => c.index === i)?.field ?? "ignore"; // a column a mapping leaves out is unmapped
+    if ((field === "power" || (field === "ignore" && !hasPower)) && headerNamesInputPower(h))
+      p(inputPowerMessage(h, field === "power", efficiency), h, "warning");
+  });
   const byKey = new Map<string, MappedColumn[]>();
   for (const c of used) {
     const k = `${c.field}|${JSON.stringify(c.block ?? null)}`;

@@ -17,6 +17,7 @@
  * makes it a mapping error until the user chooses the column's unit.
  */
 import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
+import { ELECTRICAL_POWER_WORD, namesInputPower } from "./input-power";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -198,10 +199,30 @@ const NOT_THE_PUMPS: RegExp[] = [
   /(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement).*(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b)|(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b).*(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement)/,
 ];
 
-export function detectField(norm: string): Field {
+function fieldWords(norm: string): Field {
   if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
   for (const [field, re] of FIELD_RULES) if (re.test(norm)) return field;
   return "ignore";
+}
+
+/** True when a (normalised) header reads as power but names the motor's electrical input (P1), not shaft power (input-power.ts). */
+function inputPowerWords(norm: string): boolean {
+  const field = fieldWords(norm);
+  return (field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm);
+}
+
+/** The field a (normalised) header names; a power header naming the electrical input (P1) is left unmapped. */
+export function detectField(norm: string): Field {
+  return inputPowerWords(norm) ? "ignore" : fieldWords(norm);
+}
+
+/**
+ * True when `header` reads as power but names the motor's electrical input power (P1, "Input power", "Motor kW",
+ * "kW el"...): guessHeader leaves it unmapped and checkMapping says why (inputPowerMessage).
+ */
+export function headerNamesInputPower(header: string): boolean {
+  const norm = normaliseHeader(header);
+  return inputPowerWords(norm) || inputPowerWords(extractQualifier(norm).rest);
 }
 
 /** Unit written in the (normalised, qualifier-free) header for this field, or null when none is written (or a refused word overrides it). */
@@ -309,6 +330,8 @@ export interface HeaderGuess {
   qualifier: BlockQualifier | null;
   /** A unit word the field does not take: then `unit` is only the field's default and checkMapping reports it. */
   refused: UnitRefusal | null;
+  /** The header names the electrical input power (P1), not shaft power: left unmapped, and checkMapping says why. */
+  inputPower: boolean;
 }
 
 /** Guess field, unit and wide-layout qualifier from one header cell. */
@@ -321,10 +344,10 @@ export function guessHeader(header: string): HeaderGuess {
   const base = q ? rest : norm;
   if (!q) field = detectField(norm);
   if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) {
-    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null };
+    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null, inputPower: field === "ignore" && headerNamesInputPower(header) };
   }
   const nf = field as NumericField;
   const refused = refusal(nf, header, base);
   const unit = refused ? null : detectUnit(nf, base);
-  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused };
+  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused, inputPower: false };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parseNumber } from "./numbers";
-import { guessHeader, headerUnitRefusal, HP, refusalMessage, SI_FACTOR, toSI, unitAllowed } from "./units-in-headers";
+import { guessHeader, headerNamesInputPower, headerUnitRefusal, HP, refusalMessage, SI_FACTOR, toSI, unitAllowed } from "./units-in-headers";
 import { relClose } from "./test-helpers";
 
 describe("SI factors", () => {
@@ -229,5 +229,82 @@ describe("guessHeader — unit words the field does not take are refused, not de
     expect(headerUnitRefusal("Pressure (kPa)", "head")?.word).toBe("kPa"); // source: importer rule (a pressure column mapped to head by hand)
     expect(headerUnitRefusal("Head (kPa)", "ignore")).toBeNull(); // source: an ignored column has no unit
     expect(headerUnitRefusal("Head (m)", "head")).toBeNull(); // source: m is a head unit
+  });
+});
+
+// The power field is the pump's shaft power (P2). Pump data sheets write P1 for the motor's electrical input and P2 for
+// the shaft power (common practice); P1 = P2 / (motor × drive efficiency), so P1 read as P2 overstates it (edge hunt of
+// 2026-12-04: these headers were mapped to shaft power). Such a column is left unmapped; checkMapping says why.
+describe("guessHeader — electrical input power (P1) is never shaft power", () => {
+  const P1 = (header: string): [string, string, string | null, boolean] => [header, "ignore", null, true];
+  const P2 = (header: string, unit: string): [string, string, string | null, boolean] => [header, "power", unit, false];
+  it.each<[string, string, string | null, boolean]>([
+    P1("P1"), // source: common practice (pump data sheets: P1 = electrical input)
+    P1("P1 kW"), // source: same
+    P1("P1 (W)"), // source: same
+    P1("P₁ [kW]"), // source: same (subscript one)
+    P1("P 1 kW"), // source: same (spaced)
+    P1("P1@2900"), // source: same, in a wide block (was read as power at 2900 rpm)
+    P1("Input power"), // source: common practice ("power input P1" in circulator data)
+    P1("Input power (kW)"), // source: same
+    P1("Power input"), // source: same
+    P1("Input kW"), // source: same
+    P1("kW input"), // source: same
+    P1("Motor power"), // source: the motor's power is not the pump's shaft power (definition)
+    P1("Motor kW"), // source: same
+    P1("Motor power (hp)"), // source: same
+    P1("Motorleistung"), // source: German "motor power"
+    P1("Electrical power"), // source: the electrical side is P1 (definition)
+    P1("Electric power kW"), // source: same
+    P1("El. power (kW)"), // source: same, abbreviated
+    P1("Power (el.)"), // source: same
+    P1("kW el"), // source: common practice (kW electrical)
+    P1("kWel"), // source: same, one word
+    P1("kWe"), // source: same
+    P1("Pel (W)"), // source: same
+    P1("P el"), // source: same
+    P1("Absorbed electrical power"), // source: electrical, though "absorbed" alone is P2 (common practice)
+    P1("Electrical power absorbed"), // source: same
+    P1("Power consumption (W)"), // source: common practice (a circulator's consumption is electrical)
+    P1("Power drawn (W)"), // source: same
+    P1("Wire power"), // source: the power at the wire is the electrical input (definition)
+    P1("Mains power"), // source: same
+    P1("Leistungsaufnahme P1"), // source: German data sheets (power input P1)
+    P1("Leistungsaufnahme"), // source: German "power input" (circulator data: P1)
+    P1("Eingangsleistung"), // source: German "input power"
+    P1("Elektrische Leistung"), // source: German "electrical power"
+    P1("Puissance électrique"), // source: French "electrical power"
+    P1("Puissance absorbée P1"), // source: French data sheets (P1 named)
+    P1("Puissance d'entrée"), // source: French "input power"
+    P1("Pump electrical input power"), // source: electrical, though the pump is named
+    P2("P2", "kW"), // source: common practice (P2 = shaft power; no unit word: default kW)
+    P2("P2 kW", "kW"), // source: same
+    P2("Power input P2", "kW"), // source: same (P2 named beside "input")
+    P2("Input power P2 (kW)", "kW"), // source: same
+    P2("Leistungsaufnahme P2 [kW]", "kW"), // source: same (German)
+    P2("Shaft power", "kW"), // source: definition
+    P2("Shaft power (W)", "W"), // source: same
+    P2("Motor shaft power", "kW"), // source: the motor's shaft delivers the pump's shaft power (definition)
+    P2("Wellenleistung", "kW"), // source: German "shaft power"
+    P2("Wellenleistung P2 kW", "kW"), // source: same
+    P2("BHP", "hp"), // source: common practice (brake horsepower is shaft power)
+    P2("Brake horsepower", "kW"), // source: same (no unit word: default kW, the user sees "assumed")
+    P2("Brake horsepower (hp)", "hp"), // source: same
+    P2("Absorbed power", "kW"), // source: common practice (absorbed power in pump data is shaft power P2)
+    P2("Absorbed power (kW)", "kW"), // source: same
+    P2("Power absorbed", "kW"), // source: same
+    P2("Puissance absorbée", "kW"), // source: same (French)
+    P2("Pump input power (kW)", "kW"), // source: ISO 9906 wording (pump power input: from the driver to the pump, from memory)
+    P2("Pump power input", "kW"), // source: same
+    P2("Power input to pump", "kW"), // source: same
+    P2("Power in kW", "kW"), // source: hand-written ("in" before a unit is not "input")
+    P2("Power (kW)", "kW"), // source: hand-written (plain power stays shaft power)
+    P2("Leistung", "kW"), // source: German "power"
+  ])("%s → %s [%s] (electrical input %s)", (header, field, unit, input) => {
+    const g = guessHeader(header);
+    expect(g.field).toBe(field); // source: see the row
+    expect(g.unit).toBe(unit); // source: see the row
+    expect(g.inputPower).toBe(input); // source: see the row (checkMapping's warning rests on it)
+    expect(headerNamesInputPower(header)).toBe(input); // source: checkMapping asks the same question
   });
 });

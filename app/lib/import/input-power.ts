@@ -1,0 +1,61 @@
+/**
+ * Power headers that name the motor's electrical input power (P1), not the pump's shaft power (P2).
+ * The importer's power field is shaft power: P2 = P1 × motor efficiency (× drive efficiency), so P1 read
+ * as P2 overstates it (a small wet-rotor circulator's P1 can be about twice its P2, common practice), the
+ * efficiency derived from it comes out too low and the motor is sized too large. Such a column is left
+ * unmapped ("ignore") and checkMapping says why (inputPowerMessage).
+ * Pump data sheets write P1 for the electrical input and P2 for the shaft power (common practice);
+ * "absorbed power" / "power absorbed" alone is the pump's shaft power there (common practice), unless the
+ * header also says electrical. Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
+ */
+
+/** "P1", "P 1", "P₁" (NFKC folds the subscript): the electrical input in pump data sheets. */
+const P1 = /\bp\s*-?\s*1\b/;
+/** Words that name the pump's shaft power outright: P2, shaft, brake (BHP, bkW), Welle(n), arbre. */
+const SHAFT = /\bp\s*-?\s*2\b|shaft|\bbrake\b|\bbhp\b|\bbkw\b|welle|\barbre\b/;
+/** Words that name the electrical side: electrical, "el.", kWel, kWe, Pel, wire, mains, supply, consumption, drawn, motor. */
+const ELECTRICAL =
+  /\belec|elektr|électr|\bel\b|\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b|\bwire\b|\bmains\b|\bsupply\b|\bgrid\b|consum|verbrauch|consommation|\bdrawn?\b|\bmot(?:or|eur)|\bmot\b/;
+/** The pump's own power input (the power its driver transmits to it: shaft power, ISO 9906 wording, from memory). */
+const PUMP_INPUT = /\bpump\s+(?:power\s+)?input\b|\binput\s+(?:power\s+)?(?:to|of)\s+(?:the\s+)?pump\b/;
+/** "input" in English, German (Eingangsleistung, Leistungsaufnahme) and French (puissance d'entrée). */
+const INPUT = /\binput\b|\bin-put\b|eingang|aufnahme|entrée|\bentree\b/;
+
+/** Electrical power written as one word, which the power field's own words do not catch: "kWel", "kWe", "Pel". */
+export const ELECTRICAL_POWER_WORD = /\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b/;
+
+/**
+ * True when a power header (already normalised) names the electrical input power rather than shaft power.
+ * P1 decides first; then P2/shaft/brake words; then electrical words; then the pump's own power input; then "input".
+ */
+export function namesInputPower(norm: string): boolean {
+  if (P1.test(norm)) return true;
+  if (SHAFT.test(norm)) return false;
+  if (ELECTRICAL.test(norm)) return true;
+  if (PUMP_INPUT.test(norm)) return false;
+  return INPUT.test(norm);
+}
+
+const WHY =
+  "Dutymark's power is the pump's shaft power (P2), and P2 = P1 × motor efficiency (× drive efficiency): P1 read as P2 overstates it " +
+  "(a small wet-rotor circulator's P1 can be about twice its P2), so efficiencies worked out from it come out too low and the motor is sized too large";
+
+/**
+ * The warning for a column whose header names the electrical input power.
+ * `mapped`: the column is mapped to power all the same (a user's or a saved mapping); otherwise it was left out.
+ * `efficiency`: the header of the mapped pump efficiency column, or null.
+ */
+export function inputPowerMessage(header: string, mapped: boolean, efficiency: string | null): string {
+  if (mapped)
+    return (
+      `“${header}” is mapped to shaft power, but its header names the motor's electrical input power (P1). ${WHY}. ` +
+      `If its values are P1, set the column to “— ignore —” (API: field "ignore"); keep it only if they are the pump's shaft power.`
+    );
+  const then = efficiency
+    ? `Shaft power is worked out from the pump efficiency column “${efficiency}” instead (P2 = ρ·g·Q·H / η).`
+    : `The file has no shaft power (P2) or pump efficiency column, so its curves carry no power figures (shaft power, motor size, energy): add a P2 or a pump efficiency column for them.`;
+  return (
+    `“${header}” is left unmapped: its header names the motor's electrical input power (P1). ${WHY}. ${then} ` +
+    `If its values are the pump's shaft power after all, choose “Shaft power” for the column.`
+  );
+}
