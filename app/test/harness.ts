@@ -1,6 +1,8 @@
 // Helpers for route-level integration tests: real MariaDB, real guards, real route modules,
 // called the way React Router calls them (loader/action with a Request).
 import net from "node:net";
+import path from "node:path";
+import { spawn } from "node:child_process";
 import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { memberships, users, workspaces } from "@db/schema";
@@ -90,3 +92,33 @@ export const freePort = () =>
       srv.close(() => resolve(port));
     });
   });
+
+/** The project's root (the built app lives in build/). */
+export const ROOT = path.resolve(__dirname, "../..");
+
+export type BuiltApp = { base: string; port: number; stderr: () => string; stop: () => void };
+
+/**
+ * The built app (app/serve.mjs on build/server/index.js, as npm start runs it) on a free loopback port, with
+ * `env` over this process's environment, once its /healthz answers 200 (else it is stopped and this throws).
+ * What it writes to stderr is kept (React Router logs request errors there).
+ */
+export async function startBuiltApp(env: Record<string, string> = {}, opts: { port?: number; healthy?: number } = {}): Promise<BuiltApp> {
+  const port = opts.port ?? (await freePort());
+  const base = `http://127.0.0.1:${port}`;
+  const app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
+    cwd: ROOT,
+    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", MAIL_FLUSH_INTERVAL_MS: "0", ...env },
+    stdio: ["ignore", "ignore", "pipe"],
+  });
+  let err = "";
+  app.stderr?.on("data", (b) => (err += b));
+  const built: BuiltApp = { base, port, stderr: () => err, stop: () => void app.kill("SIGTERM") };
+  const until = Date.now() + (opts.healthy ?? 20_000);
+  while (Date.now() < until && app.exitCode === null) {
+    if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return built;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  built.stop();
+  throw new Error(`the app did not start${err ? `: ${err.slice(0, 500)}` : ""}`);
+}

@@ -10,48 +10,32 @@
 // asked with a method it refuses) and the method table (lib/shared/methods.ts).
 import http from "node:http";
 import net from "node:net";
-import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { allowedMethods } from "~/lib/shared/methods";
-import { freePort, makeMember } from "./harness";
+import { makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
 
-const ROOT = path.resolve(__dirname, "../..");
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
 
-let app: ChildProcess | null = null;
+let app: BuiltApp | null = null;
 let port = 0;
 let base = "";
 let cookie = "";
 let token = "";
-/** What the app wrote to stderr (React Router logs request errors there). */
-let appErr = "";
 
 beforeAll(async () => {
   if (!built) return;
   const m = await makeMember("admin");
   cookie = m.cookie;
   token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "early", scope: "read" })).token;
-  port = await freePort();
-  base = `http://127.0.0.1:${port}`;
-  app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
-    cwd: ROOT,
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "" },
-    stdio: ["ignore", "ignore", "pipe"],
-  });
-  app.stderr?.on("data", (b) => (appErr += b));
-  const until = Date.now() + 20_000;
-  while (Date.now() < until) {
-    if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error("the app did not start");
+  app = await startBuiltApp({ APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
+  ({ base, port } = app);
 }, 30_000);
 afterAll(() => {
-  app?.kill("SIGTERM");
+  app?.stop();
   return closeDb();
 });
 
@@ -75,7 +59,7 @@ function send(method: string, p: string, headers: Record<string, string> = {}, b
 async function quietSince(from: number) {
   await fetch(`${base}/livez`);
   await new Promise((r) => setTimeout(r, 200));
-  return appErr.slice(from);
+  return app!.stderr().slice(from);
 }
 
 describe.skipIf(!built)("methods React Router does not take, answered before it", () => {
@@ -100,7 +84,7 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
   ];
 
   test("on API routes: 405 problem+json with the Allow the route gives for a method it refuses itself; an /api/ path no route serves: 404", async () => {
-    const from = appErr.length;
+    const from = app!.stderr().length;
     for (const [p, wrong] of API) {
       const own = await send(wrong, p, { authorization: `Bearer ${token}`, origin: base, "content-type": "application/json" }, wrong === "GET" ? undefined : "{}");
       expect([p, own.status], "the route's own refusal").toEqual([p, 405]);
@@ -117,7 +101,7 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
   });
 
   test("outside /api/: 405 as text with Allow from the method table (lib/shared/methods.ts)", async () => {
-    const from = appErr.length;
+    const from = app!.stderr().length;
     for (const [p, pattern] of PAGES) {
       for (const method of ["PROPFIND", "MKCOL", "TRACE", "UNLOCK"]) {
         const r = await send(method, p);
@@ -139,7 +123,7 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
   });
 
   test("a method Node's HTTP parser does not know (BREW) is refused by Node itself: 400, the connection closed, nothing echoed or logged", async () => {
-    const from = appErr.length;
+    const from = app!.stderr().length;
     const reply = await new Promise<string>((resolve, reject) => {
       const s = net.connect(port, "127.0.0.1", () => s.write(`BREW /api/v1/me HTTP/1.1\r\nHost: 127.0.0.1\r\nX-Canary: canary-4711\r\n\r\n`));
       let text = "";
@@ -155,7 +139,7 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
 
 describe.skipIf(!built)("cross-site writes refused by our own check before React Router's", () => {
   test("a POST with a foreign Origin to a page or its .data: 403 from our CSRF check, and nothing in the server's log", async () => {
-    const from = appErr.length;
+    const from = app!.stderr().length;
     const form = { "content-type": "application/x-www-form-urlencoded" };
     for (const p of ["/signin", "/signin.data", "/projects", "/projects.data", "/workspace", "/workspace.data", "/libraries/1", "/_root.data"]) {
       for (const origin of ["http://evil.example", "null", "not a url", `${base}.evil.example`]) {

@@ -2,7 +2,7 @@
 // form-action and HSTS, Cache-Control on personal responses, and body limits counted on the bytes
 // read — chunked bodies included (issue 14). Runs the built app as its own process, like faults.test.ts.
 import http from "node:http";
-import { spawn, type ChildProcess } from "node:child_process";
+import { spawn } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
@@ -11,19 +11,16 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { libraries } from "@db/schema";
 import { createLibrary } from "~/lib/libraries";
-import { freePort, makeMember } from "./harness";
+import { freePort, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
 
-const ROOT = path.resolve(__dirname, "../..");
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
 
-let app: ChildProcess | null = null;
+let app: BuiltApp | null = null;
 let base = "";
 let port = 0;
 let cookie = "";
 let token = "";
 let libraryId = 0;
-/** What the app wrote to stderr (React Router logs request errors there). */
-let appErr = "";
 
 beforeAll(async () => {
   if (!built) return;
@@ -32,25 +29,13 @@ beforeAll(async () => {
   token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "srv", scope: "read" })).token;
   const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
   libraryId = await createLibrary(viewer, { name: `Methods ${Date.now()}`, description: "" });
-  port = await freePort();
-  base = `http://127.0.0.1:${port}`;
-  app = spawn(process.execPath, ["app/serve.mjs", "build/server/index.js"], {
-    cwd: ROOT,
-    // APP_URL behind https (a proxy in front): HSTS must be on. Requests here come over plain http.
-    // The dev mailbox on as npm start has it (MAILBOX_ENABLED=1), its stand-in's API on a closed port.
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", ACCESS_LOG: "0", APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", MAIL_FLUSH_INTERVAL_MS: "0", STRIPE_API_BASE: "", MAILBOX_API_URL: `http://127.0.0.1:${await freePort()}`, MAILBOX_ENABLED: "1" },
-    stdio: ["ignore", "ignore", "pipe"],
-  });
-  app.stderr?.on("data", (b) => (appErr += b));
-  const until = Date.now() + 20_000;
-  while (Date.now() < until) {
-    if ((await fetch(`${base}/healthz`).catch(() => null))?.status === 200) return;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error("the app did not start");
+  // APP_URL behind https (a proxy in front): HSTS must be on. Requests here come over plain http.
+  // The dev mailbox on as npm start has it (MAILBOX_ENABLED=1), its stand-in's API on a closed port.
+  app = await startBuiltApp({ APP_URL: "https://dutymark.example", COOKIE_SECURE: "0", STRIPE_API_BASE: "", MAILBOX_API_URL: `http://127.0.0.1:${await freePort()}`, MAILBOX_ENABLED: "1" });
+  ({ base, port } = app);
 }, 30_000);
 afterAll(() => {
-  app?.kill("SIGTERM");
+  app?.stop();
   return closeDb();
 });
 
@@ -248,7 +233,7 @@ describe.skipIf(!built)("methods no form sends, and the dev mailbox (helper \"me
   });
 
   test("a POST to a page without an action, OPTIONS and PROPFIND on a page: 405 with Allow, and no stack in the server's log", async () => {
-    const from = appErr.length;
+    const from = app!.stderr().length;
     const cases: [string, string, string][] = [["POST", "/field", "GET, HEAD"], ["POST", "/", "GET, HEAD"], ["OPTIONS", "/signin", "GET, HEAD, POST"], ["PROPFIND", "/", "GET, HEAD"], ["PUT", "/field", "GET, HEAD"]];
     for (const [method, p, allow] of cases) {
       const r = await fetch(`${base}${p}`, { method, headers: { origin: base, "content-type": "application/x-www-form-urlencoded" }, body: method === "OPTIONS" || method === "PROPFIND" ? undefined : "x=1" });
@@ -256,7 +241,7 @@ describe.skipIf(!built)("methods no form sends, and the dev mailbox (helper \"me
     }
     await fetch(`${base}/livez`); // the app logs before it answers; one more round trip lets the pipe deliver it
     await new Promise((r) => setTimeout(r, 200));
-    expect(appErr.slice(from)).toBe("");
+    expect(app!.stderr().slice(from)).toBe("");
   });
 
   test("/dev/mailbox: served to this machine (loopback, the client address app/serve.mjs sets); a request through a proxy is a 404", async () => {

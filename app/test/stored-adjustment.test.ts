@@ -6,7 +6,6 @@
 // comparison and selection (409), the read API lists it apart; applying an adjustment or removing it is the way out.
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (stored-adjustment.ts,
 // the schema's own messages and limits in candidate-input.ts) and the demo curves (fixtures/demo/tallowmere.csv, invented).
-import { readFileSync } from "node:fs";
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub } from "react-router";
@@ -14,10 +13,10 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, selections } from "@db/schema";
-import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
+import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
@@ -29,15 +28,12 @@ afterAll(() => closeDb());
 let m: TestMember;
 let v: Viewer;
 let projectId = 0;
-/** A booster the demo curves serve (as app/test/stored-input.test.ts). */
-const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 / 3600, head: 38 } });
+const booster = boosterInput;
 
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const libraryId = await createLibrary(v, { name: "Stored adjustment pumps", description: "" });
-  await importCsvText(v, libraryId, readFileSync("fixtures/demo/tallowmere.csv", "utf8")); // invented demo curves (fixtures/demo)
-  await updateLibrary(v, libraryId, { name: "Stored adjustment pumps", description: "", visibility: "workspace" });
+  await demoLibrary(v, "Stored adjustment pumps");
   projectId = await createProject(v, { name: "Stored adjustments", site: "", description: "" });
 });
 

@@ -6,7 +6,6 @@
 // read API refuse with 409 (problem+json for the API), never a default number and never a 500.
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (stored-input.ts, the
 // schema's own limits in system-input.ts) and the demo curves (fixtures/demo/tallowmere.csv, invented).
-import { readFileSync } from "node:fs";
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub } from "react-router";
@@ -14,11 +13,11 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq, ne } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, selections, systems } from "@db/schema";
-import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
+import { DEFAULT_ADJUSTMENT, type SystemInput } from "~/lib/projects/hydraulics";
 import { systemFormValues } from "~/lib/projects/system-form";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { SI_UNITS } from "~/lib/shared/units";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
@@ -33,15 +32,12 @@ afterAll(() => closeDb());
 let m: TestMember;
 let v: Viewer;
 let projectId = 0;
-/** A booster the demo curves serve (as app/test/systems-api.test.ts): search finds pumps for it. */
-const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 / 3600, head: 38 } });
+const booster = boosterInput;
 
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const libraryId = await createLibrary(v, { name: "Stored input pumps", description: "" });
-  await importCsvText(v, libraryId, readFileSync("fixtures/demo/tallowmere.csv", "utf8")); // invented demo curves (fixtures/demo)
-  await updateLibrary(v, libraryId, { name: "Stored input pumps", description: "", visibility: "workspace" });
+  await demoLibrary(v, "Stored input pumps");
   projectId = await createProject(v, { name: "Stored inputs", site: "", description: "" });
 });
 

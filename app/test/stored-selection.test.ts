@@ -7,7 +7,6 @@
 // its own stored record. Documents frozen by the app itself all read (a sweep of demo systems × adjustments).
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (stored-selection.ts,
 // stored-doc.ts), the system schema's own limits (system-input.ts) and the demo curves (fixtures/demo/*.csv, invented).
-import { readFileSync } from "node:fs";
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub, UNSAFE_ErrorResponseImpl } from "react-router";
@@ -16,11 +15,11 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { fieldChecks, selections } from "@db/schema";
 import { fluidAt } from "~/engine";
-import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, searchForSystem, selectCandidate } from "~/lib/projects";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateSystem, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
+import { DEFAULT_ADJUSTMENT, evaluateSystem, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import { readStoredSelection } from "~/lib/projects/stored-selection";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { parseCheckFields } from "~/lib/fieldchecks";
 import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import { demoSystems } from "~/cli/demo-systems";
@@ -39,8 +38,7 @@ afterAll(() => closeDb());
 let m: TestMember;
 let v: Viewer;
 let projectId = 0;
-/** A booster the demo curves serve (as app/test/stored-input.test.ts). */
-const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 / 3600, head: 38 } });
+const booster = boosterInput;
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const readings = (head: number) => {
   const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.011" }));
@@ -51,11 +49,7 @@ const readings = (head: number) => {
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  for (const file of ["tallowmere.csv", "harrow-vell.csv", "nordquay.csv"]) {
-    const libraryId = await createLibrary(v, { name: `Frozen ${file}`, description: "" });
-    await importCsvText(v, libraryId, readFileSync(`fixtures/demo/${file}`, "utf8"), file); // invented demo curves (fixtures/demo)
-    await updateLibrary(v, libraryId, { name: `Frozen ${file}`, description: "", visibility: "workspace" });
-  }
+  for (const file of ["tallowmere.csv", "harrow-vell.csv", "nordquay.csv"]) await demoLibrary(v, `Frozen ${file}`, file);
   projectId = await createProject(v, { name: "Frozen selections", site: "", description: "" });
 });
 

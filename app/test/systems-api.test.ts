@@ -2,11 +2,10 @@
 // the stored system) and GET /api/v1/systems/:id/search (ranked results with adjustment and figures).
 // Check values: identities with the services the pages use (same numbers), the product's own rules
 // (workspace scoping, problem+json) and the affinity laws (speed = ratio × curve speed, common practice).
-import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, systemWorkbench } from "~/lib/projects";
 import { searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
@@ -16,7 +15,7 @@ import { call, makeMember, type TestMember } from "./harness";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 
 afterAll(() => closeDb());
 
@@ -28,15 +27,13 @@ let otherToken = "";
 let systemId = 0;
 let noDutyId = 0;
 const LIB = "API systems pumps";
-const booster = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 / 3600, head: 38 } });
+const booster = boosterInput;
 
 beforeAll(async () => {
   m = await makeMember("admin");
   other = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const libId = await createLibrary(v, { name: LIB, description: "" });
-  await importCsvText(v, libId, readFileSync("fixtures/demo/tallowmere.csv", "utf8")); // invented demo curves (fixtures/demo)
-  await updateLibrary(v, libId, { name: LIB, description: "", visibility: "workspace" });
+  await demoLibrary(v, LIB);
   const p = await createProject(v, { name: "API", site: "", description: "" });
   systemId = await createSystem(v, p, "Booster", booster());
   noDutyId = await createSystem(v, p, "No duty", { ...defaultSystemInput(), duty: null } as SystemInput);

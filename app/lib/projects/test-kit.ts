@@ -29,6 +29,17 @@ export async function importCsvText(v: Viewer, libId: number, text: string, file
   return uploadId;
 }
 
+/** A booster the Tallowmere demo curves serve (26–30 m static, duty 40 m³/h at 38 m): search finds pumps for it. */
+export const boosterInput = (): SystemInput => ({ ...defaultSystemInput(), staticLow: 26, staticHigh: 30, duty: { flow: 40 * M3H, head: 38 } });
+
+/** A library `name` open to the viewer's workspace, holding a demo file's curves (invented data, fixtures/demo/); its id. */
+export async function demoLibrary(v: Viewer, name: string, file = "tallowmere.csv"): Promise<number> {
+  const libraryId = await createLibrary(v, { name, description: "" });
+  await importCsvText(v, libraryId, readFileSync(`fixtures/demo/${file}`, "utf8"), file);
+  await updateLibrary(v, libraryId, { name, description: "", visibility: "workspace" });
+  return libraryId;
+}
+
 /**
  * An admin on the paid plan, a workspace library holding the first `fraction` of the demo file's rows
  * (one revision), and a system "Main" (12 m static, 150 mm runs, duty 108 m³/h at 28 m).
