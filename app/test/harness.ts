@@ -2,6 +2,7 @@
 // called the way React Router calls them (loader/action with a Request).
 import net from "node:net";
 import path from "node:path";
+import { fileURLToPath } from "node:url";
 import { spawn } from "node:child_process";
 import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
@@ -94,7 +95,7 @@ export const freePort = () =>
   });
 
 /** The project's root (the built app lives in build/). */
-export const ROOT = path.resolve(__dirname, "../..");
+export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../.."); // vitest and tsx (ESM) alike
 
 export type BuiltApp = { base: string; port: number; stderr: () => string; stop: () => void };
 
