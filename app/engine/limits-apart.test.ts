@@ -177,6 +177,25 @@ describe("the search's reasons: NPSH margin and BEP position beside 'below' and 
   });
 });
 
+describe("search reasons against the row above: BEP positions and scores apart at their printed digits", () => {
+  const row = (bepRatio: number, score: number): Candidate => ({ id: String(score), label: "P", method: "direct", ratio: 1, speed: null, diameter: null, headAtDuty: 30,
+    efficiency: 0.7, bepRatio, inPor: true, npshr: 3, npshMargin: 2, shaftPower: 5000, score, rank: 0, reason: "", warnings: [] });
+  it("a row 0.5 % from BEP below one at BEP reads 99.5 % against 100 %, not 100 % against 100 % (hand-written case)", () => {
+    const [, b] = explainRanks([row(1, 0.6), row(0.995, 0.59)], 2, 1.1);
+    const m = new RegExp(`further from BEP \\(${NUM} % against ${NUM} %\\)`).exec(b.reason);
+    expect(m, b.reason).toBeTruthy();
+    expectApart({ shown: m![1], true: 99.5 }, { shown: m![2], true: 100 }, b.reason);
+  });
+  it("sweep: scores a little apart never print equal beside 'below … on score'", () => {
+    for (const top of [0.5, 0.6691, 0.12345]) for (const off of [1e-4, 1e-5, 2e-6]) {
+      const [, b] = explainRanks([row(1, top), row(1, top - off)], 2, 1.1);
+      const m = new RegExp(`on score ${NUM} against ${NUM}`).exec(b.reason);
+      expect(m, b.reason).toBeTruthy();
+      expect(Number(m![1]), b.reason).toBeLessThan(Number(m![2]));
+    }
+  });
+});
+
 describe("fmtNum: no false zero, no negative zero", () => {
   it("a tiny non-zero value shows significant digits; a rounded zero has no sign (hand-written cases)", () => {
     // 4e-7 m³/s = 0.0004 L/s: the magnitude rule's 3 decimals would print "0.000 L/s".

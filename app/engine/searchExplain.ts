@@ -29,7 +29,7 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
   } else if (a.efficiency !== null && b.efficiency === null) diffs.push("no efficiency data where it has some");
   if (a.bepRatio !== null && b.bepRatio !== null) {
     const da = Math.abs(a.bepRatio - 1), db = Math.abs(b.bepRatio - 1);
-    if (Math.abs(da - db) >= 0.005) diffs.push(`${db > da ? "further from" : "nearer"} BEP (${Math.round(b.bepRatio * 100)} % against ${Math.round(a.bepRatio * 100)} %)`);
+    if (Math.abs(da - db) >= 0.005) diffs.push(`${db > da ? "further from" : "nearer"} BEP (${fmtPctExact(b.bepRatio, [a.bepRatio], 0)} against ${fmtPctExact(a.bepRatio, [b.bepRatio], 0)})`); // never "100 % against 100 %"
   }
   if (a.shaftPower !== null && b.shaftPower !== null) {
     const d = b.shaftPower - a.shaftPower;
@@ -39,9 +39,11 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
     diffs.push(`NPSH margin ${fmtNumExact(b.npshMargin, [a.npshMargin], 2)} against ${fmtNumExact(a.npshMargin, [b.npshMargin], 2)}`);
   }
   const score = a.score - b.score;
+  // Scores apart at their printed digits: a row below "on score" never shows the same score as the row above.
+  const [sb, sa] = [fmtNumExact(b.score, [a.score], 3), fmtNumExact(a.score, [b.score], 3)];
   return diffs.length
-    ? `below #${a.rank} because: ${diffs.join(", ")} (score ${b.score.toFixed(3)} against ${score >= 0 ? "" : "only "}${a.score.toFixed(3)})`
-    : `below #${a.rank} on score ${b.score.toFixed(3)} against ${a.score.toFixed(3)} (figures alike)`;
+    ? `below #${a.rank} because: ${diffs.join(", ")} (score ${sb} against ${score >= 0 ? "" : "only "}${sa})`
+    : `below #${a.rank} on score ${sb} against ${sa} (figures alike)`;
 }
 
 /**
