@@ -58,3 +58,14 @@ describe("mapping page: a column of electrical input power (P1)", () => {
     expect(html).toContain("▲ "); // source: a warning, not an error (the page marks warnings ▲)
   });
 });
+
+// Hydraulic power (ρ·g·Q·H, the power given to the liquid) is not shaft power either (P2 = P_hyd / η, common practice): the
+// column is left out and its row says so, as a P1 column's does (edge hunt of 2026-12-04).
+describe("mapping page: a column of hydraulic power", () => {
+  const html = render("Model,Speed rpm,Flow m3/h,Head m,Eff %,Hydraulic power (kW)\nA,2900,0,20,0,0\nA,2900,10,19,55,0.517\nA,2900,20,17,70,0.925\n");
+  it("“Hydraulic power (kW)” means “— ignore —”, and the row says why", () => {
+    expect(selected(selectOf(html, "Meaning of Hydraulic power (kW)"))).toBe("ignore"); // source: common practice (hydraulic power is not P2)
+    expect(html).toMatch(/data-testid="hydraulic-power">hydraulic power \(ρ·g·Q·H\), not the shaft power \(P2\) the importer reads: left out/); // source: importer rule (the row names the reason)
+    expect(html).toContain("worked out from the pump efficiency column “Eff %” instead"); // source: hydraulicPowerMessage
+  });
+});

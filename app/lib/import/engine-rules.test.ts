@@ -10,7 +10,9 @@ import { describe, expect, it } from "vitest";
 import { generateDemo } from "../../../fixtures/demo/generate";
 import { analyseCsv, decodeBytes, type AnalyseResult, type Mapping } from "./index";
 import { expectEngineTakes } from "./test-helpers";
-import { inSI } from "~/engine/quantityText";
+import { inSI, renderQuantities } from "~/engine/quantityText";
+import { UNIT_SYSTEMS } from "~/engine/units";
+import { RISE_FRACTION, RISE_SLACK } from "./point-rules";
 
 const dir = (d: string) => new URL(`../../../fixtures/${d}/`, import.meta.url);
 const filesIn = (d: string) =>
@@ -121,6 +123,41 @@ describe("rising head: the engine's rule (running minimum), 5 % of the first hea
     expect(a.result.problems).toEqual([]); // source: 21 − 20 = 1.0 m and 20 − 19 = 1.0 m, both = 5 % of 20 m
     const b = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,21", "A,2900,20,19", "A,2900,30,20.01", "A,2900,40,15"]));
     expect(codes(b)).toEqual([[5, "head-rising", "error"]]); // source: 20.01 − 19 = 1.01 m > 1.0 m
+  });
+  // The message prints the rise apart from its limit, 5 % of the first head (qtExact/qtLimit, fmtPctExact): the old text
+  // printed a rise of 1.0004 m as “1.00 m”, which reads as the limit itself (edge hunt of 2026-12-04, item 4).
+  it("at the threshold the message prints the rise apart from its limit: 1.0004 m against 1.00 m, 5.002 % against 5 %", () => {
+    const a = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,17", "A,2900,20,18.0004", "A,2900,30,15"]));
+    expect(codes(a)).toEqual([[4, "head-rising", "error"]]); // source: rule, 18.0004 − 17 = 1.0004 m > 5 % × 20 m = 1.0 m
+    expect(inSI(a.result.problems[0].reason)).toBe(
+      "head rises to 18.0 m, 1.0004 m above the lowest head before it on this curve (17.0 m, line 3): 5.002 % of the first point's head (20.0 m), more than the 5 % allowed (1.00 m)",
+    ); // source: 1.0004 / 20 = 5.002 % (arithmetic); limit 0.05 × 20 m = 1 m (importer rule)
+    expect(renderQuantities(a.result.problems[0].reason, UNIT_SYSTEMS.US)).toContain("3.282 ft above the lowest head"); // source: 1.0004 m / 0.3048 = 3.2822 ft (NIST SP 811 foot) against 3.2808 ft
+  });
+  it("flip at the slack: a rise within 1e-6 of the limit passes; one past it is refused and reads apart from the limit in SI and US units", () => {
+    const parts = /, ([\d.]+) (?:m|ft) above .*: ([\d.]+) % of the first point's head .*allowed \(([\d.]+) (?:m|ft)\)$/;
+    for (const first of [20, 19.96, 7.3, 123.4, 0.9, 3.05]) {
+      const lowest = first * 0.8;
+      const limit = RISE_FRACTION * first;
+      for (const k of [0.99, 1.01, 1.5, 10, 1e3, 1e5]) {
+        const head = lowest + limit * (1 + RISE_SLACK * k);
+        const a = analyseCsv(csv(T, [`A,2900,0,${first}`, `A,2900,10,${lowest}`, `A,2900,20,${head}`, `A,2900,30,${lowest / 2}`]));
+        const label = `first ${first} m, ${k} × the slack`;
+        if (k < 1) {
+          expect(a.result.problems, label).toEqual([]); // source: point-rules.ts (rise ≤ 5 % of the first head × (1 + RISE_SLACK))
+          continue;
+        }
+        expect(codes(a), label).toEqual([[4, "head-rising", "error"]]); // source: same, past the slack
+        for (const units of [UNIT_SYSTEMS.SI, UNIT_SYSTEMS.US]) {
+          const m = parts.exec(renderQuantities(a.result.problems[0].reason, units));
+          expect(m, label).not.toBeNull(); // source: the message's form (validate.ts)
+          const [, rise, pct, lim] = m!;
+          expect(rise, label).not.toBe(lim); // source: importer rule (a refused rise never reads as its limit)
+          expect(Number(rise), label).toBeGreaterThan(Number(lim)); // source: same, and in the order of their values
+          expect(Number(pct), label).toBeGreaterThan(5); // source: same, as a percentage of the first head
+        }
+      }
+    }
   });
   it("a system curve (10 → 30 m, rising everywhere) is not a pump curve", () => {
     const rows = Array.from({ length: 21 }, (_, i) => `S,2900,${i * 5},${(10 + 0.05 * i * i).toFixed(2)}`);

@@ -110,8 +110,8 @@ export {
 export { validateLongRows, curveKey, WATER_20C_DENSITY, CONSISTENCY_TOLERANCE, type Policy, CurveSetSchema, CurvePointSchema, type CurveSet, type CurvePoint, type ValidationResult, type ValidationStats } from "./validate";
 export {
   FIELDS, NUMERIC_FIELDS, TEXT_FIELDS, UNITS_BY_FIELD, SI_FACTOR, DEFAULT_UNIT, DIAMETER_UNITS, toSI, guessHeader, unitAllowed,
-  headerUnitRefusal, refusalMessage, headerNamesInputPower,
-  type Field, type NumericField, type TextField, type Unit, type UnitRefusal,
+  headerUnitRefusal, refusalMessage, headerNamesInputPower, headerPowerKind,
+  type Field, type PowerKind, type NumericField, type TextField, type Unit, type UnitRefusal,
 } from "./units-in-headers";
 export { parseNumber } from "./numbers";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";

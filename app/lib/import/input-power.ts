@@ -24,6 +24,11 @@ const INPUT = /\binput\b|\bin-put\b|eingang|aufnahme|entrée|\bentree\b/;
 /** Electrical power written as one word, which the power field's own words do not catch: "kWel", "kWe", "Pel". */
 export const ELECTRICAL_POWER_WORD = /\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b/;
 
+/** True when a power header (already normalised) names P1, P2/shaft/brake or the electrical side: then it names no hydraulic power. */
+export function namesShaftOrElectrical(norm: string): boolean {
+  return P1.test(norm) || SHAFT.test(norm) || ELECTRICAL.test(norm);
+}
+
 /**
  * True when a power header (already normalised) names the electrical input power rather than shaft power.
  * P1 decides first; then P2/shaft/brake words; then electrical words; then the pump's own power input; then "input".
@@ -51,11 +56,18 @@ export function inputPowerMessage(header: string, mapped: boolean, efficiency: s
       `“${header}” is mapped to shaft power, but its header names the motor's electrical input power (P1). ${WHY}. ` +
       `If its values are P1, set the column to “— ignore —” (API: field "ignore"); keep it only if they are the pump's shaft power.`
     );
-  const then = efficiency
-    ? `Shaft power is worked out from the pump efficiency column “${efficiency}” instead (P2 = ρ·g·Q·H / η).`
-    : `The file has no shaft power (P2) or pump efficiency column, so its curves carry no power figures (shaft power, motor size, energy): add a P2 or a pump efficiency column for them.`;
   return (
-    `“${header}” is left unmapped: its header names the motor's electrical input power (P1). ${WHY}. ${then} ` +
+    `“${header}” is left unmapped: its header names the motor's electrical input power (P1). ${WHY}. ${shaftPowerSource(efficiency)} ` +
     `If its values are the pump's shaft power after all, choose “Shaft power” for the column.`
   );
+}
+
+/**
+ * Where a file's shaft power comes from once a power column that is not shaft power is left out.
+ * `efficiency`: the header of the mapped pump efficiency column, or null.
+ */
+export function shaftPowerSource(efficiency: string | null): string {
+  return efficiency
+    ? `Shaft power is worked out from the pump efficiency column “${efficiency}” instead (P2 = ρ·g·Q·H / η).`
+    : `The file has no shaft power (P2) or pump efficiency column, so its curves carry no power figures (shaft power, motor size, energy): add a P2 or a pump efficiency column for them.`;
 }

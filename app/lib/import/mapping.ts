@@ -8,6 +8,7 @@ import { parseNumber } from "./numbers";
 import type { SourceRow } from "./parse";
 import type { Problem } from "./types";
 import { inputPowerMessage } from "./input-power";
+import { hydraulicPowerMessage } from "./hydraulic-power";
 import {
   DIAMETER_UNITS,
   EFFICIENCY_UNITS,
@@ -18,7 +19,7 @@ import {
   POWER_UNITS,
   SPEED_UNITS,
   guessHeader,
-  headerNamesInputPower,
+  headerPowerKind,
   headerUnitRefusal,
   refusalMessage,
   unitAllowed,
@@ -246,14 +247,14 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
     if (refused) p(refusalMessage(h, refused), h);
   }
   const used = mapping.columns.filter((c) => c.field !== "ignore" && c.field !== "notes");
-  // A header naming the motor's electrical input power (P1) is not shaft power: say so when it is mapped to power,
-  // and when it was left out of a file that then has no power column (with or without a pump efficiency column).
+  // A header naming the motor's electrical input power (P1) or the hydraulic power is not shaft power: say so when it is
+  // mapped to power, and when it was left out of a file that then has no power column (with or without a pump efficiency column).
   const efficiency = used.find((c) => c.field === "efficiency")?.header ?? null;
   const hasPower = used.some((c) => c.field === "power");
   headers.forEach((h, i) => {
     const field = mapping.columns.find((c) => c.index === i)?.field ?? "ignore"; // a column a mapping leaves out is unmapped
-    if ((field === "power" || (field === "ignore" && !hasPower)) && headerNamesInputPower(h))
-      p(inputPowerMessage(h, field === "power", efficiency), h, "warning");
+    const kind = field === "power" || (field === "ignore" && !hasPower) ? headerPowerKind(h) : null;
+    if (kind) p((kind === "input" ? inputPowerMessage : hydraulicPowerMessage)(h, field === "power", efficiency), h, "warning");
   });
   const byKey = new Map<string, MappedColumn[]>();
   for (const c of used) {

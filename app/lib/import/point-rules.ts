@@ -19,9 +19,16 @@ import { fmtPctExact, fmtPctLimit } from "../../engine/quantityText.ts";
  */
 export const RISE_FRACTION = 0.05;
 
-/** True when `head` rises more than RISE_FRACTION × `first` above `lowest` (a relative 1e-9 absorbs rounding: 42 after 40 is exactly 5 %). */
+/**
+ * Relative slack on the rise limit (fraction of it, 1e-6): absorbs rounding (42 after 40 is exactly 5 %), and leaves every
+ * refused rise at least 5e-6 percentage points above 5 % of the first head, so the message prints it apart from the
+ * limit: fmtPctExact shows up to 6 decimals of a percent, qtExact up to 9 significant digits.
+ */
+export const RISE_SLACK = 1e-6;
+
+/** True when `head` rises more than RISE_FRACTION × `first` (× (1 + RISE_SLACK)) above `lowest`. */
 export function risesTooMuch(head: number, lowest: number, first: number): boolean {
-  return head - lowest > RISE_FRACTION * first * (1 + 1e-9);
+  return head - lowest > RISE_FRACTION * first * (1 + RISE_SLACK);
 }
 
 /**

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { detectDelimiter, sniffCsv } from "./sniff";
+import { detectDelimiter, isUnitCell, sniffCsv } from "./sniff";
 import { fixture } from "./test-helpers";
 
 describe("sniffCsv on the fixtures", () => {
@@ -48,6 +48,13 @@ describe("sniffCsv on inline cases", () => {
     expect(s.headerRowCount).toBe(2); // source: hand-written case
     expect(s.headers).toEqual(["Model", "Flow m3/h", "Head m"]); // source: hand-written case
     expect([s.headerLine, s.dataStartLine]).toEqual([2, 4]); // source: hand-written case
+  });
+  it("a row under the names is a units row only when every filled cell is a unit word: a model row (“CM 32-160”) stays data", () => {
+    expect(isUnitCell("CM 32-160")).toBe(false); // source: importer rule (digits outside a unit's spelling; "cm" alone would be a unit)
+    expect(isUnitCell("2900 rpm")).toBe(false); // source: same (a group label, not a unit)
+    expect(["l/h", "rpm", "(ft)", "m³/h", "min-1", "Imp. gpm", "bkW", "%", "-", "kPa"].every(isUnitCell)).toBe(true); // source: units-in-headers.ts (read) and unit-words.ts (refused)
+    const s = sniffCsv("Model,Flow,Head\nCM 32-160,,\n,0,20\n,10,19\n,20,17\n");
+    expect([s.headerRowCount, s.headers, s.dataStartLine]).toEqual([1, ["Model", "Flow", "Head"], 2]); // source: hand-written case (fill-down layout)
   });
   it("a group row above the names (\"2900 rpm\" over Q;H) qualifies the columns below it", () => {
     const s = sniffCsv(",2900 rpm,,1450 rpm,\nModel,Q,H,Q,H\nA,0,30,0,7.5\nA,10,29,5,7.3\n");

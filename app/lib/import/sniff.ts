@@ -4,7 +4,7 @@
  */
 import { isCommaDecimalCell, isDotDecimalCell, parseNumber } from "./numbers";
 import { isBlankRow, normaliseNewlines, parseRows, stripBom, type Delimiter, type SourceRow } from "./parse";
-import { extractQualifier, normaliseHeader } from "./units-in-headers";
+import { detectField, detectUnit, extractQualifier, headerUnitRefusal, normaliseHeader, NUMERIC_FIELDS } from "./units-in-headers";
 
 export interface SniffResult {
   delimiter: Delimiter;
@@ -100,8 +100,20 @@ function shape(cells: string[], decimalComma: boolean): RowShape {
 const isHeaderish = (s: RowShape) => s.nonEmpty >= 2 && s.numeric / s.nonEmpty < 0.5;
 const isDataish = (s: RowShape) => s.numeric >= 1 && s.numeric / s.nonEmpty >= 0.5;
 
-const UNIT_CELL =
-  /^[[(]?\s*(m3\/h|m³\/h|m3\/s|m³\/s|l\/s|l\/min|gpm|us gpm|m|ft|mm|in|%|-|kw|w|hp|rpm|1\/min|min-1)\s*[\])]?$/i;
+/** Digits that belong to a unit's spelling (m3, 1/min, min-1, mH2O, ft3, cm2): any other digit is a value or a name. */
+const UNIT_DIGITS = /m3|ft3|[ck]?m2|1\s*\/\s*min|min\s*-\s*1|h2o/g;
+
+/**
+ * A cell of a units row: a unit word some field reads ("l/h", "rpm", "m", "(ft)", "%", "-", "Imp. gpm", "bkW") or refuses
+ * ("kPa", "bar": merged into the header, the refusal is then named), with no field word of its own besides its unit's
+ * ("rpm" is speed, "gpm" flow) and no number (a model "CM 32-160" above its points, a group label "2900 rpm" are not units).
+ */
+export function isUnitCell(cell: string): boolean {
+  const norm = normaliseHeader(cell);
+  if (norm === "" || /\d/.test(norm.replace(UNIT_DIGITS, ""))) return false;
+  const own = detectField(norm);
+  return NUMERIC_FIELDS.some((f) => (own === "ignore" || own === f) && (detectUnit(f, norm) !== null || headerUnitRefusal(cell, f) !== null));
+}
 
 export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResult {
   const { text: noBom, hadBom } = stripBom(raw);
@@ -134,11 +146,11 @@ export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResu
         found = k;
         break;
       }
-      // names row followed by a units row, then data
+      // names row followed by a units row (every filled cell a unit word), then data
       const after = nonBlank[k + 1];
       if (
         after !== undefined &&
-        records[after].cells.every((c) => c.trim() === "" || UNIT_CELL.test(c.trim())) &&
+        records[after].cells.every((c) => c.trim() === "" || isUnitCell(c)) &&
         nonBlank.slice(k + 2, k + 5).length > 0 &&
         nonBlank.slice(k + 2, k + 5).every((j) => isDataish(shapes[j]))
       ) {

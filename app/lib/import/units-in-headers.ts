@@ -18,6 +18,7 @@
  */
 import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
 import { ELECTRICAL_POWER_WORD, namesInputPower } from "./input-power";
+import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -178,7 +179,7 @@ export function extractQualifier(norm: string): { qualifier: BlockQualifier | nu
 const FIELD_RULES: Array<[Exclude<Field, "ignore">, RegExp]> = [
   ["npshr", /npsh/],
   ["efficiency", /\beff|efficiency|\beta\b|η|wirkungsgrad|rendement/],
-  ["power", /power|\bp[12]\b|\bbhp\b|\bkw\b|\bhp\b|^p\b|\bpwr\b|leistung|puissance/],
+  ["power", /power|\bp[12]\b|\bbhp\b|\bb?kw\b|\bhp\b|^p\b|\bpwr\b|leistung|puissance/],
   ["speed", /speed|\brpm\b|^n\b|1\/min|min-1|min⁻¹|drehzahl|vitesse/],
   ["impeller", /impeller|diam|\bdia\b|\btrim\b|laufrad|ø|⌀|^d2?\b/],
   ["flow", /flow|^q\b|\bq\b|capacity|\bvolume|förderstrom|durchfluss|débit|\bgpm\b|\b(?:i|us|uk)gpm\b|gal\s*\/\s*min|m3\/|l\/s|l\/min|l\/h\b|\blps\b|\blpm\b|\blph\b|\bcmh\b/],
@@ -191,12 +192,14 @@ const FIELD_RULES: Array<[Exclude<Field, "ignore">, RegExp]> = [
 
 /**
  * Columns that look like a point field but are not the pump's: NPSH available, NPSH margin or ratio
- * (not the pump's NPSHr) and the efficiency of the motor, the drive or the whole set (not the pump's).
+ * (not the pump's NPSHr), the efficiency of the motor, the drive or the whole set (not the pump's), and the
+ * motor's power factor (cos φ, PF: a ratio, which read as power in the default kW made 0.85 into 850 W).
  * They are left unmapped ("ignore"), as an unknown column is.
  */
 const NOT_THE_PUMPS: RegExp[] = [
   /npsh\s*-?\s*a(?![a-z])|npsh.*(?:avail|margin|marge|ratio|reserve|verfüg|vorhanden|dispon|anlage)/,
   /(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement).*(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b)|(?:motor|moteur|\bmot\b|overall|\btotal\b|wire|\bw2w\b|combined|\bset\b|\bunit\b|system|drive|\bvfd\b|\bvsd\b|gesamt|aggregat|\bglobal\b|\bges\b).*(?:\beff|efficiency|η|\beta\b|wirkungsgrad|rendement)/,
+  /power\s*-?\s*factor|\bcos\s*(?:φ|phi)|\bpf\b|leistungsfaktor|facteur\s+de\s+puissance/,
 ];
 
 function fieldWords(norm: string): Field {
@@ -205,24 +208,35 @@ function fieldWords(norm: string): Field {
   return "ignore";
 }
 
-/** True when a (normalised) header reads as power but names the motor's electrical input (P1), not shaft power (input-power.ts). */
-function inputPowerWords(norm: string): boolean {
+/** A power that is not the pump's shaft power: the motor's electrical input (P1) or the hydraulic power (ρ·g·Q·H). */
+export type PowerKind = "input" | "hydraulic";
+
+/** The power a (normalised) header names when it is not shaft power (input-power.ts, hydraulic-power.ts), else null. */
+function powerKindWords(norm: string): PowerKind | null {
   const field = fieldWords(norm);
-  return (field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm);
+  if ((field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm)) return "input";
+  if ((field === "power" || (field === "ignore" && HYDRAULIC_POWER_WORD.test(norm))) && namesHydraulicPower(norm)) return "hydraulic";
+  return null;
 }
 
-/** The field a (normalised) header names; a power header naming the electrical input (P1) is left unmapped. */
+/** The field a (normalised) header names; a power header naming the electrical input (P1) or the hydraulic power is left unmapped. */
 export function detectField(norm: string): Field {
-  return inputPowerWords(norm) ? "ignore" : fieldWords(norm);
+  return powerKindWords(norm) ? "ignore" : fieldWords(norm);
 }
 
 /**
- * True when `header` reads as power but names the motor's electrical input power (P1, "Input power", "Motor kW",
- * "kW el"...): guessHeader leaves it unmapped and checkMapping says why (inputPowerMessage).
+ * The power `header` names when it reads as power but is not the pump's shaft power: "input" (P1, "Input power",
+ * "Motor kW", "kW el"...) or "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw"...); null otherwise.
+ * guessHeader leaves such a column unmapped and checkMapping says why (inputPowerMessage, hydraulicPowerMessage).
  */
-export function headerNamesInputPower(header: string): boolean {
+export function headerPowerKind(header: string): PowerKind | null {
   const norm = normaliseHeader(header);
-  return inputPowerWords(norm) || inputPowerWords(extractQualifier(norm).rest);
+  return powerKindWords(norm) ?? powerKindWords(extractQualifier(norm).rest);
+}
+
+/** True when `header` reads as power but names the motor's electrical input power (P1): see headerPowerKind. */
+export function headerNamesInputPower(header: string): boolean {
+  return headerPowerKind(header) === "input";
 }
 
 /** Unit written in the (normalised, qualifier-free) header for this field, or null when none is written (or a refused word overrides it). */
@@ -255,7 +269,7 @@ export function detectUnit(field: Field, norm: string): Unit | null {
       if (/fraction|^[^a-z0-9]*-[^a-z0-9]*$|\s-\s*$|p\.u\.|0\.\.1/.test(norm)) return "fraction";
       return null;
     case "power":
-      if (/\bkw\b/.test(norm)) return "kW";
+      if (/\bb?kw\b/.test(norm)) return "kW"; // bkW: brake (shaft) kilowatts
       if (/\bb?hp\b/.test(norm)) return "hp";
       if (/\bw\b|\bwatts?\b/.test(norm)) return "W";
       return null;
@@ -332,6 +346,8 @@ export interface HeaderGuess {
   refused: UnitRefusal | null;
   /** The header names the electrical input power (P1), not shaft power: left unmapped, and checkMapping says why. */
   inputPower: boolean;
+  /** The header names the hydraulic power (ρ·g·Q·H), not shaft power: left unmapped, and checkMapping says why. */
+  hydraulicPower: boolean;
 }
 
 /** Guess field, unit and wide-layout qualifier from one header cell. */
@@ -344,10 +360,11 @@ export function guessHeader(header: string): HeaderGuess {
   const base = q ? rest : norm;
   if (!q) field = detectField(norm);
   if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) {
-    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null, inputPower: field === "ignore" && headerNamesInputPower(header) };
+    const kind = field === "ignore" ? headerPowerKind(header) : null;
+    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null, inputPower: kind === "input", hydraulicPower: kind === "hydraulic" };
   }
   const nf = field as NumericField;
   const refused = refusal(nf, header, base);
   const unit = refused ? null : detectUnit(nf, base);
-  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused, inputPower: false };
+  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused, inputPower: false, hydraulicPower: false };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parseNumber } from "./numbers";
-import { guessHeader, headerNamesInputPower, headerUnitRefusal, HP, refusalMessage, SI_FACTOR, toSI, unitAllowed } from "./units-in-headers";
+import { guessHeader, headerNamesInputPower, headerPowerKind, headerUnitRefusal, HP, refusalMessage, SI_FACTOR, toSI, unitAllowed, type PowerKind } from "./units-in-headers";
 import { relClose } from "./test-helpers";
 
 describe("SI factors", () => {
@@ -306,5 +306,70 @@ describe("guessHeader — electrical input power (P1) is never shaft power", () 
     expect(g.unit).toBe(unit); // source: see the row
     expect(g.inputPower).toBe(input); // source: see the row (checkMapping's warning rests on it)
     expect(headerNamesInputPower(header)).toBe(input); // source: checkMapping asks the same question
+    expect(g.hydraulicPower).toBe(false); // source: P1 or P2 words decide before hydraulic ones (hydraulic-power.ts)
+  });
+});
+
+// Hydraulic power (P_hyd = ρ·g·Q·H, the power given to the liquid) is not shaft power either: P2 = P_hyd / η, so it
+// understates shaft power by the pump efficiency (common practice); a power factor is a ratio, not a power; bkW is brake
+// (shaft) kW (edge hunt of 2026-12-04: the first two were read as shaft power, 0.85 as 850 W; bkW was left out).
+describe("guessHeader — hydraulic power and power factor are not shaft power; bkW is", () => {
+  type Row = [string, string, string | null, PowerKind | null];
+  const HYD = (header: string): Row => [header, "ignore", null, "hydraulic"];
+  const NOT_POWER = (header: string): Row => [header, "ignore", null, null];
+  it.each<Row>([
+    HYD("Hydraulic power"), // source: common practice (P_hyd = ρ·g·Q·H)
+    HYD("Hydraulic power (kW)"), // source: same
+    HYD("Hydr. power [W]"), // source: same, abbreviated
+    HYD("P hyd"), // source: same (symbol P_hyd)
+    HYD("P_hyd (kW)"), // source: same
+    HYD("Phyd"), // source: same, one word
+    HYD("Phyd [kW]"), // source: same (was read as shaft power in kW)
+    HYD("P hydr kW"), // source: same
+    HYD("Output power"), // source: common practice (a pump's power output is the power given to the liquid)
+    HYD("Power output (kW)"), // source: same
+    HYD("Pump power output"), // source: ISO 9906 wording (pump power output P_u, from memory)
+    HYD("P out"), // source: same
+    HYD("Pout kW"), // source: same
+    HYD("Pu (kW)"), // source: ISO 9906 symbol P_u (from memory)
+    HYD("P_u"), // source: same
+    HYD("Water power"), // source: common practice (water power = hydraulic power)
+    HYD("Water horsepower (hp)"), // source: common practice (WHP = Q·H·SG / 3960 in US units)
+    HYD("WHP"), // source: same
+    HYD("Fluid power (kW)"), // source: common practice
+    HYD("Useful power"), // source: common practice (useful = hydraulic output)
+    HYD("Pw"), // source: common practice (water power symbol)
+    HYD("Pw (kW)"), // source: same (was read as shaft power in kW)
+    HYD("Hydraulische Leistung"), // source: German "hydraulic power"
+    HYD("Nutzleistung"), // source: German "useful power"
+    HYD("Puissance hydraulique"), // source: French "hydraulic power"
+    HYD("Puissance utile"), // source: French "useful power"
+    NOT_POWER("Power factor"), // source: definition (P / S, a ratio: 0.85 was read as 850 W)
+    NOT_POWER("Power factor (-)"), // source: same
+    NOT_POWER("cos φ"), // source: same (cos φ for a sinusoidal supply)
+    NOT_POWER("cos phi"), // source: same
+    NOT_POWER("Cos Phi"), // source: same
+    NOT_POWER("cosφ"), // source: same
+    NOT_POWER("cos(φ)"), // source: same
+    NOT_POWER("cos ϕ"), // source: same (the phi symbol, folded by NFKC)
+    NOT_POWER("PF"), // source: same (abbreviation)
+    NOT_POWER("PF (%)"), // source: same
+    NOT_POWER("Leistungsfaktor"), // source: German "power factor"
+    NOT_POWER("Facteur de puissance"), // source: French "power factor"
+    ["bkW", "power", "kW", null], // source: common practice (brake kW = shaft power in kW)
+    ["BkW", "power", "kW", null], // source: same
+    ["Power (bkW)", "power", "kW", null], // source: same (read from the header, not assumed)
+    ["Shaft power output (kW)", "power", "kW", null], // source: shaft named: shaft power, though "output" is written
+    ["P (W)", "power", "W", null], // source: hand-written (power in watts, not the symbol Pw)
+    ["Power p.u.", "power", "kW", null], // source: hand-written (p.u. is not the symbol P_u)
+    ["Hydraulic efficiency %", "efficiency", "%", null], // source: the pump's efficiency (hydraulic here does not make it a power)
+  ])("%s → %s [%s] (%s)", (header, field, unit, kind) => {
+    const g = guessHeader(header);
+    expect(g.field).toBe(field); // source: see the row
+    expect(g.unit).toBe(unit); // source: see the row
+    if (field === "power") expect(g.unitFromHeader).toBe(unit !== "kW" || /kw/i.test(header)); // source: see the row (a unit word is read, not assumed)
+    expect(g.hydraulicPower).toBe(kind === "hydraulic"); // source: see the row (checkMapping's warning rests on it)
+    expect(g.inputPower).toBe(false); // source: none of these names the electrical input (P1)
+    expect(headerPowerKind(header)).toBe(kind); // source: checkMapping and the mapping page ask the same question
   });
 });

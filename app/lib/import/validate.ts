@@ -30,7 +30,7 @@ import { parseNumber, underflows } from "./numbers";
 import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
-import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
+import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
 export { CurvePointSchema, CurveSetSchema, type CurvePoint, type CurveSet } from "./curve-schema";
@@ -296,8 +296,12 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
           continue;
         }
         if (risesTooMuch(p.head, lowest, first)) {
+          // The rise and its limit each read apart from the other (qtExact/qtLimit, fmtPctExact), so a refused rise never reads as the limit.
+          const rise = p.head - lowest;
+          const limit = RISE_FRACTION * first;
           add(r.line, r.headColumn, "head-rising",
-            `head rises to ${qt("head", p.head)}, ${qt("head", p.head - lowest)} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): more than ${RISE_FRACTION * 100} % of the first point's head (${qt("head", first)})`, key);
+            `head rises to ${qt("head", p.head)}, ${qtExact("head", rise, [limit])} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): ` +
+            `${fmtPctExact(rise / first, [RISE_FRACTION])} of the first point's head (${qt("head", first)}), more than the ${fmtPctLimit(RISE_FRACTION)} allowed (${qtLimit("head", limit, [rise])})`, key);
           continue;
         }
       } else if (!(p.head > 0)) {
