@@ -45,7 +45,7 @@ describe("mapping page: a header unit the field does not take", () => {
 });
 
 // P1 is the motor's electrical input, P2 the pump's shaft power (common practice in pump data sheets): a P1 column is left
-// out, the row says so beside its field, and the problems list carries the warning (edge hunt of 2026-12-04).
+// out, the row says so beside its field, and the problems list carries the warning (edge hunt of 2026-12-03).
 describe("mapping page: a column of electrical input power (P1)", () => {
   const html = render("Model,Speed rpm,Flow m3/h,Head m,P1 kW\nA,2900,0,20,1.0\nA,2900,10,19,1.2\nA,2900,20,17,1.4\n");
   it("“P1 kW” means “— ignore —”, not shaft power, and the row says why", () => {
@@ -60,7 +60,7 @@ describe("mapping page: a column of electrical input power (P1)", () => {
 });
 
 // Hydraulic power (ρ·g·Q·H, the power given to the liquid) is not shaft power either (P2 = P_hyd / η, common practice): the
-// column is left out and its row says so, as a P1 column's does (edge hunt of 2026-12-04).
+// column is left out and its row says so, as a P1 column's does (edge hunt of 2026-12-03).
 describe("mapping page: a column of hydraulic power", () => {
   const html = render("Model,Speed rpm,Flow m3/h,Head m,Eff %,Hydraulic power (kW)\nA,2900,0,20,0,0\nA,2900,10,19,55,0.517\nA,2900,20,17,70,0.925\n");
   it("“Hydraulic power (kW)” means “— ignore —”, and the row says why", () => {

@@ -125,7 +125,7 @@ describe("rising head: the engine's rule (running minimum), 5 % of the first hea
     expect(codes(b)).toEqual([[5, "head-rising", "error"]]); // source: 20.01 − 19 = 1.01 m > 1.0 m
   });
   // The message prints the rise apart from its limit, 5 % of the first head (qtExact/qtLimit, fmtPctExact): the old text
-  // printed a rise of 1.0004 m as “1.00 m”, which reads as the limit itself (edge hunt of 2026-12-04, item 4).
+  // printed a rise of 1.0004 m as “1.00 m”, which reads as the limit itself (edge hunt of 2026-12-03, item 4).
   it("at the threshold the message prints the rise apart from its limit: 1.0004 m against 1.00 m, 5.002 % against 5 %", () => {
     const a = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,17", "A,2900,20,18.0004", "A,2900,30,15"]));
     expect(codes(a)).toEqual([[4, "head-rising", "error"]]); // source: rule, 18.0004 − 17 = 1.0004 m > 5 % × 20 m = 1.0 m
