@@ -6,20 +6,11 @@ import { ListTable } from "./ListTable";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
-/** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it. */
-export type SelectionCheckRow = {
-  id: number;
-  version: number;
-  superseded: boolean;
-  createdAt: string;
-  byName: string;
-  byWorkspace: string;
-  flow: number | null;
-  head: number;
-  flowSource: string;
-  verdict: Verdict;
-  rule: string;
-};
+/** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
+export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; byName: string; byWorkspace: string } & (
+  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string }
+  | { readable: false; unreadable: string }
+);
 
 export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { checks: SelectionCheckRow[]; unitSystem: UnitChoice; selectionId: number }) {
   return (
@@ -44,14 +35,22 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                 {c.byName || "a former member"}
                 <div className="text-xs text-slate-500">{c.byWorkspace}</div>
               </td>
-              <td>
-                {c.flow !== null ? fmtFlow(unitSystem, c.flow) : "flow not measured"} at {fmtHead(unitSystem, c.head)}
-                {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
-              </td>
-              <td>
-                <VerdictBadge verdict={c.verdict} />
-              </td>
-              <td className="max-w-xs text-xs">{c.rule}</td>
+              {c.readable ? (
+                <>
+                  <td>
+                    {c.flow !== null ? fmtFlow(unitSystem, c.flow) : "flow not measured"} at {fmtHead(unitSystem, c.head)}
+                    {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
+                  </td>
+                  <td>
+                    <VerdictBadge verdict={c.verdict} />
+                  </td>
+                  <td className="max-w-xs text-xs">{c.rule}</td>
+                </>
+              ) : (
+                <td colSpan={3} className="max-w-md text-xs" data-testid="unreadable-check">
+                  <strong className="font-semibold">Check {c.id}.</strong> {c.unreadable}
+                </td>
+              )}
               <td>
                 <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.createdAt)}`}>
                   Open

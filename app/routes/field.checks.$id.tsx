@@ -23,11 +23,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "fieldcheck.read");
   const c = await getFieldCheck(viewerOf(m), readId(params.id));
   const url = new URL(request.url);
-  return {
+  const record = {
     check: { id: c.check.id, version: c.check.version, chainId: c.check.chainId ?? c.check.id, verdict: c.check.verdict, grade: c.check.grade, notes: c.check.notes, createdAt: c.check.createdAt.toISOString() },
     selection: { id: c.selection.id, title: renderUnits(c.selection.title, m.user.units), projectName: c.selection.projectName, systemName: c.selection.systemName, own: c.selection.own, ownerWorkspace: c.selection.ownerWorkspace },
-    readings: c.readings,
-    result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
     recordedBy: c.recordedBy,
     recordedIn: c.recordedIn,
     mayAmend: c.mayAmend && can(m.role, "fieldcheck.write"),
@@ -37,7 +35,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
     unitSystem: m.user.units,
   };
+  // A check whose stored record cannot be read: its page says so and what is wrong (stored values in the reader's units),
+  // and keeps what does not come from that record — versions, photos, amending with readings entered again.
+  if (!c.readable) return { ...record, readable: false as const, problems: renderDeep(c.problems, m.user.units), problemCount: c.problemCount };
+  return {
+    ...record,
+    readable: true as const,
+    readings: c.readings,
+    result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
+  };
 }
+
+type RecordData = Awaited<ReturnType<typeof loader>>;
 
 const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
 
@@ -50,6 +59,7 @@ function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
 
 export default function FieldCheckRecord() {
   const d = useLoaderData<typeof loader>();
+  if (!d.readable) return <UnreadableRecord d={d} />;
   const r = d.result;
   const sys = d.unitSystem;
   const rd = d.readings;
@@ -60,32 +70,7 @@ export default function FieldCheckRecord() {
   const pin = inputPowerW(rd.power);
   return (
     <article className="mx-auto max-w-3xl space-y-4">
-      <header>
-        <Crumbs trail={[["/field", "Field checks"], [`/field/selections/${d.selection.id}`, d.selection.title]]} />
-        <h1 className="text-xl font-bold text-brand-900">
-          Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
-        </h1>
-        <p className="text-sm text-slate-700">
-          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtUtc(d.check.createdAt)} by {d.recordedBy} ({d.recordedIn})
-        </p>
-      </header>
-      {d.justRecorded ? (
-        <p role="status" className="panel text-sm">
-          Check recorded. The engineer of the project has been sent a notice.
-        </p>
-      ) : null}
-      {!d.latest ? (
-        <p className="caution">
-          This version was amended later: see{" "}
-          {d.versions
-            .filter((x) => x.version > d.check.version)
-            .map((x) => (
-              <a key={x.id} href={`/field/checks/${x.id}`} className="mr-2">
-                version {x.version}
-              </a>
-            ))}
-        </p>
-      ) : null}
+      <RecordHead d={d} />
 
       <section className="panel space-y-2" aria-labelledby="verdict-h">
         <h2 id="verdict-h" className="font-semibold">
@@ -219,6 +204,50 @@ export default function FieldCheckRecord() {
         <GradeTable highlight={r.grade.id} />
       </Part>
 
+      <RecordFoot d={d} />
+      <FieldCaution />
+    </article>
+  );
+}
+
+/** The record's head: whose check, when, and a later version when there is one. */
+function RecordHead({ d }: { d: RecordData }) {
+  return (
+    <>
+      <header>
+        <Crumbs trail={[["/field", "Field checks"], [`/field/selections/${d.selection.id}`, d.selection.title]]} />
+        <h1 className="text-xl font-bold text-brand-900">
+          Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
+        </h1>
+        <p className="text-sm text-slate-700">
+          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtUtc(d.check.createdAt)} by {d.recordedBy} ({d.recordedIn})
+        </p>
+      </header>
+      {d.justRecorded ? (
+        <p role="status" className="panel text-sm">
+          Check recorded. The engineer of the project has been sent a notice.
+        </p>
+      ) : null}
+      {!d.latest ? (
+        <p className="caution">
+          This version was amended later: see{" "}
+          {d.versions
+            .filter((x) => x.version > d.check.version)
+            .map((x) => (
+              <a key={x.id} href={`/field/checks/${x.id}`} className="mr-2">
+                version {x.version}
+              </a>
+            ))}
+        </p>
+      ) : null}
+    </>
+  );
+}
+
+/** Photos and what can be done next (amend, the CSV, other versions): none of it comes from the stored readings or result. */
+function RecordFoot({ d }: { d: RecordData }) {
+  return (
+    <>
       {d.photos.length ? (
         <Part title="Photos">
           <ul className="mt-2 grid grid-cols-2 gap-2 sm:grid-cols-3">
@@ -254,7 +283,37 @@ export default function FieldCheckRecord() {
           </span>
         ) : null}
       </section>
+    </>
+  );
+}
 
+/** The page of a check whose stored readings or result do not pass their schemas: what is wrong, and no numbers. */
+function UnreadableRecord({ d }: { d: Extract<RecordData, { readable: false }> }) {
+  return (
+    <article className="mx-auto max-w-3xl space-y-4">
+      <RecordHead d={d} />
+      <section className="panel space-y-2 border-fail" role="alert" aria-labelledby="unreadable-h" data-testid="unreadable-check">
+        <h2 id="unreadable-h" className="font-semibold text-fail">
+          This check cannot be read: its stored record does not pass the checks
+        </h2>
+        <p className="text-sm">
+          {d.problemCount} problem{d.problemCount === 1 ? "" : "s"} found when its stored readings and result were read (changed outside the app, or cut off). None of its
+          numbers, its verdict against grade {d.check.grade} or its chart are shown: nothing from a damaged record. The record itself is kept as it is.
+        </p>
+        <ul className="list-disc pl-5 text-sm">
+          {d.problems.map((p, i) => (
+            <li key={i}>
+              <span className="font-semibold">{p.label}</span>: {p.message}
+              {p.stored ? <span className="text-slate-600"> Stored: {p.stored}.</span> : null}
+            </li>
+          ))}
+          {d.problemCount > d.problems.length ? <li>…and {d.problemCount - d.problems.length} more.</li> : null}
+        </ul>
+        <p className="text-sm">
+          {d.mayAmend && d.latest ? "Amend it to record the readings again as a new version (the form starts blank); the photos are carried over." : "The workspace that recorded it can amend it with the readings entered again."}
+        </p>
+      </section>
+      <RecordFoot d={d} />
       <FieldCaution />
     </article>
   );

@@ -129,6 +129,16 @@ export default function UploadPreview() {
         </Notice>
       ) : null}
       {d.mappingSource === "saved" ? <Notice>Using the column mapping saved with this library from its last import.</Notice> : null}
+      {d.savedMappingUnreadable ? (
+        <Notice>
+          <span data-testid="saved-mapping-unreadable">{d.savedMappingUnreadable.text}</span>
+          {d.savedMappingUnreadable.lines.map((line, i) => (
+            <span key={i} className="mt-1 block text-xs">
+              {line}
+            </span>
+          ))}
+        </Notice>
+      ) : null}
       {d.title.lines.length && (d.title.model || d.title.speed || d.title.impeller || d.title.fluid) ? (
         <Notice>
           <span data-testid="title-read">

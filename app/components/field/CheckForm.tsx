@@ -47,7 +47,7 @@ type Props = {
   units: UnitChoice;
   fields: CheckFields;
   serverErrors: Errors;
-  amends: { id: number; version: number } | null;
+  amends: { id: number; version: number; unreadable?: boolean } | null;
   onQueued: () => void;
 };
 
@@ -155,6 +155,7 @@ export function CheckForm(props: Props) {
       {amends ? (
         <p className="panel text-sm">
           Amending check {amends.id} (version {amends.version}). The earlier version stays on record; this one becomes version {amends.version + 1}.
+          {amends.unreadable ? " Its stored record cannot be read, so the form starts blank: enter the readings again." : ""}
           <input type="hidden" name="amends" value={amends.id} />
         </p>
       ) : null}

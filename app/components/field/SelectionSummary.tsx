@@ -52,17 +52,11 @@ export function SelectionSummary({ selection, unitSystem }: { selection: Summary
   );
 }
 
-export type HistoryEntry = {
-  id: number;
-  version: number;
-  superseded: boolean;
-  verdict: Verdict;
-  grade: string;
-  createdAt: string;
-  flow: number | null;
-  head: number;
-  flowSource: string;
-};
+/** One check of the history (page.server.ts `checkPage`): readable, or what is wrong with its stored record. */
+export type HistoryEntry = { id: number; version: number; superseded: boolean; createdAt: string } & (
+  | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string }
+  | { readable: false; unreadable: string }
+);
 
 export function CheckHistoryList({ selectionId, history, unitSystem }: { selectionId: number; history: HistoryEntry[]; unitSystem: UnitChoice }) {
   return (
@@ -85,11 +79,19 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
                 Check {check.id} v{check.version} · {fmtDateTime(check.createdAt)}
                 {check.superseded ? " (amended later)" : ""}
               </a>
-              <span className="text-slate-600">
-                {check.flow != null ? fmtFlow(unitSystem, check.flow) : "—"} at {fmtHead(unitSystem, check.head)}
-                {check.flowSource === "measured" ? "" : " (flow inferred)"}
-              </span>
-              <VerdictBadge verdict={check.verdict} grade={check.grade} />
+              {check.readable ? (
+                <>
+                  <span className="text-slate-600">
+                    {check.flow != null ? fmtFlow(unitSystem, check.flow) : "—"} at {fmtHead(unitSystem, check.head)}
+                    {check.flowSource === "measured" ? "" : " (flow inferred)"}
+                  </span>
+                  <VerdictBadge verdict={check.verdict} grade={check.grade} />
+                </>
+              ) : (
+                <span className="w-full text-slate-700" data-testid="unreadable-check">
+                  {check.unreadable}
+                </span>
+              )}
             </li>
           ))}
         </ul>

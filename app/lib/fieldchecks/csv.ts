@@ -1,33 +1,34 @@
 // The history of a selection's field checks as CSV (SI units in every header), through the one
 // CSV writer. Pure: takes what `checkHistory` returns.
 import { toCsv } from "../shared/csv";
+import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
 import type { CheckResult } from "./result";
+
+type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
 
 /** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
 export type CheckHistoryForCsv = {
   selection: { id: number; title: string; projectName: string };
-  checks: {
-    id: number;
-    chainId: number;
-    version: number;
-    superseded: boolean;
-    createdAt: string;
-    byName: string;
-    byWorkspace: string;
-    verdict: Verdict;
-    grade: string;
-    notes: string;
-    result: CheckResult;
-    readings: Readings;
-  }[];
+  checks: (CheckBase & ({ readable: true; result: CheckResult; readings: Readings } | { readable: false; problems: DocProblem[]; problemCount: number }))[];
 };
 
-/** One row per check (oldest first) after two comment lines naming the selection and the cautions. */
+/**
+ * One row per check (oldest first) after two comment lines naming the selection and the cautions. A check whose stored
+ * record cannot be read has no row (no blank numbers a spreadsheet would sum as zeros): a comment line above the header
+ * names it — id, version, date, who — and says what is wrong.
+ */
 export function historyCsv(h: CheckHistoryForCsv): string {
+  const unreadable = [...h.checks].reverse().flatMap((c) => {
+    if (c.readable) return [];
+    const n = c.problemCount;
+    const more = n > c.problems.length ? `; and ${n - c.problems.length} more` : "";
+    return [[`# check ${c.id} (chain ${c.chainId}, version ${c.version}, recorded ${c.createdAt} by ${c.byName || "a former member"}, ${c.byWorkspace}) cannot be read, so it has no row below: ${n} problem${n === 1 ? "" : "s"} in its stored record — ${c.problems.map(problemLine).join("; ")}${more}`]];
+  });
   const lines: unknown[][] = [
     ["# Dutymark field checks", `selection ${h.selection.id}`, h.selection.title, h.selection.projectName],
     ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],
+    ...unreadable,
     [
       "check_id", "chain_id", "version", "superseded", "recorded_at", "recorded_by", "workspace", "verdict", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
@@ -37,6 +38,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     ],
   ];
   for (const c of [...h.checks].reverse()) {
+    if (!c.readable) continue;
     const r = c.result;
     lines.push([
         c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,

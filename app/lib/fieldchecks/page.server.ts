@@ -7,6 +7,7 @@ import type { Viewer } from "../libraries";
 import type { UnitChoice } from "../shared/units";
 import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
 import { checkHistory, getFieldCheck } from "./records.server";
+import { unreadableCheckText } from "./stored-check";
 
 export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: UnitChoice, amendParam: string) {
   const history = await checkHistory(viewer, selectionId);
@@ -17,15 +18,16 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
     ...blankFields(unitSystem, { suction: pipeOn("suction"), discharge: pipeOn("discharge"), temperatureC: frozen.system.input.temperatureC }),
     gradeId: DEFAULT_GRADE,
   };
-  let amends: { id: number; version: number } | null = null;
+  let amends: { id: number; version: number; unreadable: boolean } | null = null;
   const amendId = amendParam ? parseId(amendParam) : null;
   if (amendParam && amendId === null) throw data("Nothing lives at this address.", { status: 404 });
   if (amendId !== null) {
     const amended = await getFieldCheck(viewer, amendId);
     if (amended.check.selectionId !== selection.id) throw data("That check belongs to another selection.", { status: 404 });
     if (!amended.mayAmend) throw data("Only the workspace that recorded a check may amend it.", { status: 403 });
-    fields = { ...amended.fields, gradeId: amended.check.grade, notes: amended.check.notes };
-    amends = { id: amended.check.id, version: amended.check.version };
+    // A check whose stored record cannot be read may still be amended (a new version with readings entered again): its form starts blank.
+    if (amended.readable) fields = { ...amended.fields, gradeId: amended.check.grade, notes: amended.check.notes };
+    amends = { id: amended.check.id, version: amended.check.version, unreadable: !amended.readable };
   }
   const speedRatio = frozen.adjustment.method === "speed" ? (frozen.result?.ratio ?? 1) : 1;
   return {
@@ -44,19 +46,19 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
       fingerprint: selection.fingerprint,
       frozen: forTheField(frozen),
     },
-    history: history.checks.map((check) => ({
-      id: check.id,
-      version: check.version,
-      superseded: check.superseded,
-      verdict: check.verdict,
-      grade: check.grade,
-      createdAt: check.createdAt,
-      byName: check.byName,
-      byWorkspace: check.byWorkspace,
-      flow: check.result.delivered.flow,
-      head: check.result.delivered.head,
-      flowSource: check.result.engine.flowSource,
-    })),
+    history: history.checks.map((check) => {
+      const base = { id: check.id, version: check.version, superseded: check.superseded, createdAt: check.createdAt, byName: check.byName, byWorkspace: check.byWorkspace };
+      if (!check.readable) return { ...base, readable: false as const, unreadable: unreadableCheckText(check) };
+      return {
+        ...base,
+        readable: true as const,
+        verdict: check.verdict,
+        grade: check.grade,
+        flow: check.result.delivered.flow,
+        head: check.result.delivered.head,
+        flowSource: check.result.engine.flowSource,
+      };
+    }),
     fields,
     amends,
   };

@@ -20,6 +20,8 @@ import { deliveredSentence, evaluateCheck } from "./evaluate";
 import { renderUnits, unitsOf } from "../shared/units";
 import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
 import type { CheckResult } from "./result";
+import { readStoredCheck } from "./stored-check";
+import { MAX_PROBLEMS_LISTED } from "../projects/stored-doc";
 import { PhotoRejected, type PhotoIn } from "./photos.server";
 
 const notFound = (what: string) => data(`No such ${what} open to this workspace.`, { status: 404 });
@@ -130,13 +132,14 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
     .from(fieldChecks)
     .where(eq(fieldChecks.chainId, row.chainId ?? row.id))
     .orderBy(fieldChecks.version);
-  const stored = JSON.parse(row.readingsJson) as { readings: Readings; fields: CheckFields };
+  // Its stored documents are read against their schemas: one that fails is said, never shown with numbers (no 500 either).
+  const stored = readStoredCheck(row);
   return {
     check: row,
     selection: sel,
-    readings: stored.readings,
-    fields: stored.fields,
-    result: JSON.parse(row.resultJson) as CheckResult,
+    ...(stored.ok
+      ? { readable: true as const, readings: stored.readings, fields: stored.fields, result: stored.result }
+      : { readable: false as const, problems: stored.problems.slice(0, MAX_PROBLEMS_LISTED), problemCount: stored.problems.length }),
     recordedBy: by?.name || by?.email || "a former member",
     recordedIn: ws?.name ?? "",
     mayAmend: row.workspaceId === viewer.workspace.id,
@@ -159,7 +162,9 @@ export async function checkRecords(viewer: Viewer, selectionId: number) {
 }
 
 /**
- * The checks recorded against a selection, newest first, each marked when a later version of it exists.
+ * The checks recorded against a selection, newest first, each marked when a later version of it exists. A check whose
+ * stored readings or result fail their schemas (stored-check.ts) is listed as unreadable (`readable: false`: who, when
+ * and what is wrong, no numbers) and the others as before: one damaged row never takes the list down.
  * No access rule: callers pass a selection they have already opened for the viewer.
  */
 export async function checksOf(selectionId: number) {
@@ -175,21 +180,27 @@ export async function checksOf(selectionId: number) {
     const chain = r.c.chainId ?? r.c.id;
     if (!latestOfChain.has(chain) || latestOfChain.get(chain)! < r.c.version) latestOfChain.set(chain, r.c.version);
   }
-  return rows.map((r) => ({
-    id: r.c.id,
-    chainId: r.c.chainId ?? r.c.id,
-    version: r.c.version,
-    superseded: latestOfChain.get(r.c.chainId ?? r.c.id)! > r.c.version,
-    verdict: r.c.verdict,
-    grade: r.c.grade,
-    notes: r.c.notes,
-    createdAt: r.c.createdAt.toISOString(),
-    byName: r.byName ?? "",
-    byWorkspace: r.byWorkspace,
-    result: JSON.parse(r.c.resultJson) as CheckResult,
-    readings: (JSON.parse(r.c.readingsJson) as { readings: Readings }).readings,
-  }));
+  return rows.map((r) => {
+    const base = {
+      id: r.c.id,
+      chainId: r.c.chainId ?? r.c.id,
+      version: r.c.version,
+      superseded: latestOfChain.get(r.c.chainId ?? r.c.id)! > r.c.version,
+      verdict: r.c.verdict,
+      grade: r.c.grade,
+      notes: r.c.notes,
+      createdAt: r.c.createdAt.toISOString(),
+      byName: r.byName ?? "",
+      byWorkspace: r.byWorkspace,
+    };
+    const stored = readStoredCheck(r.c);
+    return stored.ok
+      ? { ...base, readable: true as const, result: stored.result, readings: stored.readings }
+      : { ...base, readable: false as const, problems: stored.problems.slice(0, MAX_PROBLEMS_LISTED), problemCount: stored.problems.length };
+  });
 }
+
+export type ListedCheck = Awaited<ReturnType<typeof checksOf>>[number];
 
 export type CheckHistory = Awaited<ReturnType<typeof checkHistory>>;
 
@@ -219,12 +230,16 @@ export class CheckConflict extends Error {
 /** A device-made id: 8 to 64 letters, digits, `-` or `_` (a UUID fits). */
 export const CLIENT_ID = /^[A-Za-z0-9_-]{8,64}$/;
 
-/** The check already recorded under this device id, if any (same workspace and selection only). */
+/**
+ * The check already recorded under this device id, if any (same workspace and selection only). A retry needs only its
+ * id: its stored documents are not read here, so a damaged one (its own page says so) never turns the phone's retry into
+ * a 500 that the queue would send again and again.
+ */
 async function checkByClientId(viewer: Viewer, selectionId: number, clientId: string) {
-  const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.clientId, clientId));
+  const [row] = await db().select({ id: fieldChecks.id, workspaceId: fieldChecks.workspaceId, selectionId: fieldChecks.selectionId }).from(fieldChecks).where(eq(fieldChecks.clientId, clientId));
   if (!row) return null;
   if (row.workspaceId !== viewer.workspace.id || row.selectionId !== selectionId) throw data("That check id is already used by another check.", { status: 409 });
-  return { id: row.id, result: JSON.parse(row.resultJson) as CheckResult, mail: null, duplicate: true as const };
+  return { id: row.id, result: null, mail: null, duplicate: true as const };
 }
 
 function isDuplicateKey(e: unknown): boolean {

@@ -2,23 +2,24 @@
 // what the pump delivered, and the verdict with the tolerance rule it was judged by. Only for the
 // selection's own workspace (contractors of a shared project see them on the field pages instead):
 // it takes the selection as `getSelection` opened it for the viewer (limited to their workspace), so the
-// page reads the selection once.
+// page reads the selection once. A check whose stored record cannot be read keeps its row, with what is wrong.
 import type { getSelection } from "../projects/selections.server";
 import { checksOf } from "./records.server";
 import { gradeRule } from "./form";
+import { unreadableCheckText } from "./stored-check";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
-  return (await checksOf(selection.id)).map((c) => ({
-    id: c.id,
-    version: c.version,
-    superseded: c.superseded,
-    createdAt: c.createdAt,
-    byName: c.byName,
-    byWorkspace: c.byWorkspace,
-    flow: c.result.delivered.flow,
-    head: c.result.delivered.head,
-    flowSource: c.result.engine.flowSource,
-    verdict: c.verdict,
-    rule: gradeRule(c.result.grade),
-  }));
+  return (await checksOf(selection.id)).map((c) => {
+    const base = { id: c.id, version: c.version, superseded: c.superseded, createdAt: c.createdAt, byName: c.byName, byWorkspace: c.byWorkspace };
+    if (!c.readable) return { ...base, readable: false as const, unreadable: unreadableCheckText(c) };
+    return {
+      ...base,
+      readable: true as const,
+      flow: c.result.delivered.flow,
+      head: c.result.delivered.head,
+      flowSource: c.result.engine.flowSource,
+      verdict: c.verdict,
+      rule: gradeRule(c.result.grade),
+    };
+  });
 }

@@ -2,12 +2,12 @@
 // validation) boiled down to a summary a page can carry. Pure (no Node, no database), so it runs in
 // a worker thread (upload-analysis.server.ts) — a 200 000-row file takes seconds to analyse — and
 // on the server's import path alike.
-import * as v from "valibot";
 import {
   analyseCsv, curveName, curveNameOfKey, decodeBytes, encodingNamed, MappingSchema,
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
 import { firstCurveSets } from "../import/packed";
+import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
 
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;
@@ -29,19 +29,37 @@ export function encodingOf(mapping: unknown): Encoding | undefined {
   return encodingNamed((mapping as { encoding?: unknown } | null | undefined)?.encoding);
 }
 
-/** The saved mapping of the library when it still fits the file's headers, else null. */
-export function savedMappingFor(lib: { mappingJson: string | null }, headers: string[]): Mapping | null {
-  if (!lib.mappingJson) return null;
-  try {
-    const m = v.parse(MappingSchema, JSON.parse(lib.mappingJson));
-    const norm = (h: string | undefined) => (h ?? "").trim().toLowerCase();
-    return m.columns.every((c) => norm(headers[c.index]) === norm(c.header)) ? m : null;
-  } catch {
-    return null;
-  }
+const MAPPING_WORDS: DocWords = {
+  whole: "the saved mapping",
+  labels: { version: "format version", layout: "layout (long or wide)", columns: "columns", index: "position", header: "header", field: "field", unit: "unit", unitSource: "where the unit came from", block: "curve block", defaults: "values for missing columns", fillDownModel: "fill the model down", fillDownKeys: "fill speed and impeller down", policy: "curves with bad points", encoding: "text encoding", source: "file layout corrections" },
+  items: { columns: "column" },
+  quantities: {},
+};
+
+/**
+ * The library's saved mapping read against `MappingSchema` (projects/stored-doc.ts): the mapping, none saved, or what is
+ * wrong with it. A saved mapping is a convenience, not data: one that cannot be read is set aside (a fresh mapping is
+ * proposed, as for a first upload) and the mapping page says so; the next import saves the mapping it used in its place.
+ */
+export function readSavedMapping(mappingJson: string | null): { mapping: Mapping | null; problems: DocProblem[] } {
+  if (!mappingJson) return { mapping: null, problems: [] };
+  const r = readStoredDoc(mappingJson, MappingSchema, MAPPING_WORDS);
+  return r.ok ? { mapping: r.value, problems: [] } : { mapping: null, problems: r.problems };
 }
 
-export type StoredAnalysis = AnalyseResult & { mappingSource: "form" | "saved" | "suggested"; decoded: Decoded };
+/** The saved mapping of the library when it can be read and still fits the file's headers, else null. */
+export function savedMappingFor(lib: { mappingJson: string | null }, headers: string[]): Mapping | null {
+  const m = readSavedMapping(lib.mappingJson).mapping;
+  const norm = (h: string | undefined) => (h ?? "").trim().toLowerCase();
+  return m && m.columns.every((c) => norm(headers[c.index]) === norm(c.header)) ? m : null;
+}
+
+export type StoredAnalysis = AnalyseResult & {
+  mappingSource: "form" | "saved" | "suggested";
+  decoded: Decoded;
+  /** The library's saved mapping when it was looked at (no mapping given) and could not be read: what is wrong with it. */
+  savedMappingProblems: DocProblem[];
+};
 
 /**
  * Analyses the stored upload on the server with the given mapping (or the saved one, or the
@@ -50,14 +68,15 @@ export type StoredAnalysis = AnalyseResult & { mappingSource: "form" | "saved" |
 export function analyseStored(source: string | Uint8Array, lib: { mappingJson: string | null }, mapping?: unknown): StoredAnalysis {
   const decodedAs = (m: unknown): Decoded =>
     typeof source === "string" ? { text: source, encoding: "utf-8", bom: false, how: "valid-utf-8" } : decodeBytes(source, encodingOf(m));
-  const out = (a: AnalyseResult, mappingSource: StoredAnalysis["mappingSource"], decoded: Decoded): StoredAnalysis =>
-    Object.assign(a, { mappingSource, decoded }); // (not a spread: `rows` is a lazy getter)
+  const out = (a: AnalyseResult, mappingSource: StoredAnalysis["mappingSource"], decoded: Decoded, savedMappingProblems: DocProblem[] = []): StoredAnalysis =>
+    Object.assign(a, { mappingSource, decoded, savedMappingProblems }); // (not a spread: `rows` is a lazy getter)
   if (mapping !== undefined) {
     const d = decodedAs(mapping);
     return out(analyseCsv(d.text, mapping), "form", d);
   }
   const d = decodedAs(undefined);
   const first = analyseCsv(d.text);
+  const stored = readSavedMapping(lib.mappingJson);
   const saved = savedMappingFor(lib, first.sniff.headers);
   if (saved) {
     try {
@@ -67,7 +86,19 @@ export function analyseStored(source: string | Uint8Array, lib: { mappingJson: s
       /* fall through to the suggestion */
     }
   }
-  return out(first, "suggested", d);
+  return out(first, "suggested", d, stored.problems);
+}
+
+/** What the mapping page says of a saved mapping that cannot be read (null when there is none such). */
+export function savedMappingNotice(problems: readonly DocProblem[]) {
+  if (!problems.length) return null;
+  const n = problems.length;
+  return {
+    text:
+      `The column mapping saved with this library from its last import cannot be read (${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), so it is not used: ` +
+      "the mapping below is proposed from this file's headers, as for a first upload. Check it before importing; the import saves the mapping it uses in its place.",
+    lines: problems.slice(0, MAX_PROBLEMS_LISTED).map(problemLine),
+  };
 }
 
 
@@ -107,6 +138,7 @@ export function summarise(analysis: StoredAnalysis) {
     samples: sniff.headers.map((_, i) => analysis.rows.slice(0, 3).map((r) => r.cells[i] ?? "")),
     mapping,
     mappingSource: analysis.mappingSource,
+    savedMappingUnreadable: savedMappingNotice(analysis.savedMappingProblems),
     stats: result.stats,
     problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
     problemCount: problems.length,

@@ -1,0 +1,107 @@
+// A library's saved column mapping (libraries.mapping_json) damaged in the database — cut off, a field the importer does not
+// know, a layout that is neither long nor wide — was set aside without a word (a bare try/catch): the mapping page then
+// proposed a fresh mapping and said nothing, as if the library had never been imported. The saved mapping is a convenience,
+// not data, so it is still set aside — the page proposes the mapping from the file's headers, as for a first upload — but
+// now the page says so and what is wrong with it; the next import saves the mapping it used in its place.
+// Real route module, guards and MariaDB (app/test/harness.ts). Check values: our product rules (upload-analysis.ts,
+// stored-doc.ts), MappingSchema's own messages (app/lib/import/mapping.ts); the demo CSV is invented (fixtures/demo/).
+import { readFileSync } from "node:fs";
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { createRoutesStub } from "react-router";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { libraries } from "@db/schema";
+import { importUpload, storeUpload, type Viewer } from "~/lib/libraries";
+import { analyseStored } from "~/lib/libraries/upload-analysis";
+import { demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
+import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
+import { call, makeMember, type TestMember } from "./harness";
+
+afterAll(() => closeDb());
+
+const FILE = "tallowmere.csv";
+const text = readFileSync(`fixtures/demo/${FILE}`, "utf8");
+let m: TestMember;
+let v: Viewer;
+
+beforeAll(async () => {
+  m = await makeMember("admin");
+  v = await viewerOfUser(m.userId);
+});
+
+type Page = { mappingSource: string; mapping: unknown; savedMappingUnreadable: { text: string; lines: string[] } | null };
+const savedOf = async (lib: number) => (await db().select({ mappingJson: libraries.mappingJson }).from(libraries).where(eq(libraries.id, lib)))[0].mappingJson;
+
+/** A library that imported the demo file (its mapping saved) and a second upload of the same file, as a new revision would start. */
+async function libraryWithUpload(name: string) {
+  const lib = await demoLibrary(v, name, FILE);
+  const upload = await storeUpload(v, lib, new File([text], FILE, { type: "text/csv" }));
+  const page = () => call(uploadPage.loader as never, { path: `/libraries/${lib}/uploads/${upload}`, params: { id: String(lib), uploadId: String(upload) }, cookie: m.cookie });
+  return { lib, upload, page };
+}
+
+test("control: a sound saved mapping is used, and no notice", async () => {
+  const { lib, page } = await libraryWithUpload("Saved mapping, sound");
+  expect(await savedOf(lib)).toBeTruthy(); // the import saved its mapping (import-write.server.ts)
+  const r = await page();
+  expect(r.status).toBe(200);
+  expect((r.body as Page).mappingSource).toBe("saved");
+  expect((r.body as Page).savedMappingUnreadable).toBeNull();
+});
+
+type Corruption = { name: string; corrupt: (saved: string) => string; label: string; message: RegExp; stored: string | null };
+const CASES: Corruption[] = [
+  { name: "cut off (not JSON)", corrupt: (saved) => saved.slice(0, 40), label: "the saved mapping", message: /^Is not valid JSON/, stored: null },
+  {
+    name: "a column mapped to a field the importer does not know",
+    corrupt: (saved) => {
+      const mp = JSON.parse(saved);
+      return JSON.stringify({ ...mp, columns: mp.columns.map((c: object, i: number) => (i === 1 ? { ...c, field: "flw" } : c)) });
+    },
+    label: "column 2, field",
+    message: /^Should be one of "model", /,
+    stored: '"flw"',
+  },
+  { name: "a layout that is neither long nor wide", corrupt: (saved) => JSON.stringify({ ...JSON.parse(saved), layout: "diagonal" }), label: "layout (long or wide)", message: /^Should be "long" or "wide"\.$/, stored: '"diagonal"' },
+];
+
+describe.each(CASES)("a saved mapping $name", (c) => {
+  let page: Page;
+  let ctx: Awaited<ReturnType<typeof libraryWithUpload>>;
+  beforeAll(async () => {
+    ctx = await libraryWithUpload(`Saved mapping ${c.name}`);
+    await db().update(libraries).set({ mappingJson: c.corrupt((await savedOf(ctx.lib))!) }).where(eq(libraries.id, ctx.lib));
+    const r = await ctx.page();
+    expect(r.status).toBe(200);
+    page = r.body as Page;
+  });
+
+  test("is set aside: the mapping proposed is the first upload's (from the headers), never the damaged one", () => {
+    expect(page.mappingSource).toBe("suggested");
+    expect(page.mapping).toEqual(analyseStored(text, { mappingJson: null }).mapping);
+  });
+
+  test("and the page says so, where and what is wrong (was: nothing said)", () => {
+    const notice = page.savedMappingUnreadable;
+    expect(notice?.text).toMatch(/^The column mapping saved with this library from its last import cannot be read \(1 problem: /);
+    expect(notice?.text).toContain(`: ${c.label}), so it is not used: the mapping below is proposed from this file's headers, as for a first upload.`);
+    const line = notice?.lines.find((l) => l.startsWith(`${c.label}: `)) ?? JSON.stringify(notice);
+    const stored = c.stored ? ` (stored: ${c.stored})` : "";
+    expect(line.endsWith(stored), line).toBe(true);
+    expect(line.slice(c.label.length + 2, line.length - stored.length)).toMatch(c.message);
+    const data = page; // the loader's own answer
+    const Stub = createRoutesStub([{ path: "/libraries/:id/uploads/:uploadId", Component: uploadPage.default as never, loader: () => data }]);
+    const html = renderToString(createElement(Stub, { initialEntries: [`/libraries/${ctx.lib}/uploads/${ctx.upload}`], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "");
+    expect(html).toContain('data-testid="saved-mapping-unreadable">The column mapping saved with this library from its last import cannot be read');
+    expect(html).not.toContain("Using the column mapping saved with this library");
+  });
+
+  test("the next import saves the mapping it used in its place", async () => {
+    await importUpload(v, ctx.lib, ctx.upload, page.mapping, "after a damaged saved mapping");
+    const r = await ctx.page();
+    expect((r.body as Page).savedMappingUnreadable).toBeNull();
+    expect((r.body as Page).mappingSource).toBe("saved");
+  });
+});
