@@ -45,7 +45,7 @@ describe("header units in whole files", () => {
   });
 
   // P1 is the motor's electrical input and P2 the pump's shaft power (common practice in pump data sheets); the importer's
-  // power is shaft power, so a P1 column is never read as it (edge hunt of 2026-12-04: "P1 kW" became shaft power).
+  // power is shaft power, so a P1 column is never read as it (edge hunt of 2026-12-03: "P1 kW" became shaft power).
   const mappingWarnings = (a: ReturnType<typeof analyseCsv>) => a.result.problems.filter((p) => p.code === "mapping" && p.severity === "warning");
   it("a P1-only file imports with no power column and a warning naming the header", () => {
     const a = analyseCsv(file("Speed rpm,Flow m3/h,Head m,P1 kW", "2900", ["0,20,1.0", "10,19,1.2", "20,17,1.4"]));
@@ -91,7 +91,7 @@ describe("header units in whole files", () => {
   });
 
   // Hydraulic power P_hyd = ρ·g·Q·H and shaft power P2 = P_hyd / η (common practice): read as P2 it understates shaft power by the
-  // pump efficiency. A power factor is a ratio (0.85 read in the default kW was 850 W). bkW is brake kW, shaft power (edge hunt of 2026-12-04).
+  // pump efficiency. A power factor is a ratio (0.85 read in the default kW was 850 W). bkW is brake kW, shaft power (edge hunt of 2026-12-03).
   it("a hydraulic power column is left unmapped with a warning naming it; it never becomes shaft power", () => {
     // Invented points: P_hyd = 998.2 × 9.80665 × Q × H at Q = 0, 10, 20 m³/h and H = 20, 19, 17 m (0, 0.517, 0.925 kW).
     const a = analyseCsv(file("Speed rpm,Flow m3/h,Head m,Hydraulic power (kW)", "2900", ["0,20,0", "10,19,0.517", "20,17,0.925"]));

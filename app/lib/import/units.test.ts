@@ -234,7 +234,7 @@ describe("guessHeader — unit words the field does not take are refused, not de
 
 // The power field is the pump's shaft power (P2). Pump data sheets write P1 for the motor's electrical input and P2 for
 // the shaft power (common practice); P1 = P2 / (motor × drive efficiency), so P1 read as P2 overstates it (edge hunt of
-// 2026-12-04: these headers were mapped to shaft power). Such a column is left unmapped; checkMapping says why.
+// 2026-12-03: these headers were mapped to shaft power). Such a column is left unmapped; checkMapping says why.
 describe("guessHeader — electrical input power (P1) is never shaft power", () => {
   const P1 = (header: string): [string, string, string | null, boolean] => [header, "ignore", null, true];
   const P2 = (header: string, unit: string): [string, string, string | null, boolean] => [header, "power", unit, false];
@@ -312,7 +312,7 @@ describe("guessHeader — electrical input power (P1) is never shaft power", () 
 
 // Hydraulic power (P_hyd = ρ·g·Q·H, the power given to the liquid) is not shaft power either: P2 = P_hyd / η, so it
 // understates shaft power by the pump efficiency (common practice); a power factor is a ratio, not a power; bkW is brake
-// (shaft) kW (edge hunt of 2026-12-04: the first two were read as shaft power, 0.85 as 850 W; bkW was left out).
+// (shaft) kW (edge hunt of 2026-12-03: the first two were read as shaft power, 0.85 as 850 W; bkW was left out).
 describe("guessHeader — hydraulic power and power factor are not shaft power; bkW is", () => {
   type Row = [string, string, string | null, PowerKind | null];
   const HYD = (header: string): Row => [header, "ignore", null, "hydraulic"];
