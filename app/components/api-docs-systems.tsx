@@ -7,6 +7,7 @@ const VERDICTS: [string, string][] = [
   ["oversized", "The pump delivers more than the tolerance above the duty flow; the reasons say what throttling, trim or speed would save."],
   ["outside-catalogue", "The trim or speed needed lies outside what the model publishes (smallest to largest impeller; speed 30–100 % of rated unless the model says otherwise)."],
   ["no-operating-point", "The pump and system curves do not meet; the reasons say why (shut-off head below the static head, curve ends before the system curve, …)."],
+  ["viscosity-uncorrected", "The liquid is more viscous than the water the curve was measured on (ANSI/HI 9.6.7 parameter B above 1) and the water curve would meet the duty or be oversized: it is not corrected for viscosity, so it cannot be signed off as is; the reasons give B and the water curve's result. A short pump stays short."],
 ];
 
 const SYSTEM_FIELDS: [string, string][] = [

@@ -105,6 +105,7 @@ const VERDICT_TONE: Record<Verdict["status"], string> = {
   oversized: "bg-amber-100 text-amber-900",
   "outside-catalogue": "bg-red-100 text-red-900",
   "no-operating-point": "bg-red-100 text-red-900",
+  "viscosity-uncorrected": "bg-amber-100 text-amber-900",
 };
 
 /** The verdict as a badge (status), with its rule and reasons below unless `compact`. */

@@ -22,6 +22,7 @@ export * from "./gradeUncertainty.ts";
 export * from "./verdict.ts";
 export * from "./motor.ts";
 export * from "./lifeCycleCost.ts";
+export * from "./viscous.ts";
 // Modules that also export helpers for the engine's own use: only these names are public.
 export { EngineInputError, type EngineWarning } from "./errors.ts";
 export {

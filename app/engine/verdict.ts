@@ -17,17 +17,23 @@
  * 4. `oversized` — at that edge it is above the duty flow × (1 + plus tolerance); the reasons
  *    say what throttling, trim or speed would save.
  * 5. `meets` — otherwise.
+ * A liquid more viscous than the water the curve was measured on (ANSI/HI 9.6.7 parameter B above 1, from
+ * memory: viscous.ts) qualifies rules 4 and 5: the water curve's `meets` or `oversized` becomes
+ * `viscosity-uncorrected` (the curve must be corrected for viscosity before it can be signed off; the water
+ * curve's result is kept in the reasons). A `short` stays short (viscosity lowers head, flow and efficiency),
+ * with the reason said.
  * Default duty flow tolerance −0 % / +10 % (common practice: the duty flow is a minimum,
  * a tenth more is accepted margin). Comparisons allow 1 part in 10⁶ for solver round-off.
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
-import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
 import { MAX_TRIM_FRACTION } from "./affinity.ts";
+import { HI_VISCOSITY_SOURCE, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 
-export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point";
+export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point" | "viscosity-uncorrected";
 
-export const VERDICT_STATUSES: readonly VerdictStatus[] = ["meets", "short", "oversized", "outside-catalogue", "no-operating-point"];
+export const VERDICT_STATUSES: readonly VerdictStatus[] = ["meets", "short", "oversized", "outside-catalogue", "no-operating-point", "viscosity-uncorrected"];
 
 /** Duty flow tolerance as fractions of the duty flow (dimensionless): accepted when Qd·(1−minus) ≤ Q ≤ Qd·(1+plus). */
 export interface FlowTolerance {
@@ -99,6 +105,11 @@ export interface VerdictInput {
   /** Shaft power now at the demanding edge, W, and the options that would bring it to the duty. */
   powerNow?: number | null;
   savings?: SavingOption[];
+  /**
+   * The pumped liquid's ANSI/HI 9.6.7 parameter B at the pump's water BEP (dimensionless; viscous.ts), null or absent
+   * when the liquid is the water the curve was measured on. Above 1 the water curve cannot be signed off as is.
+   */
+  viscosityB?: number | null;
 }
 
 export interface Verdict {
@@ -181,6 +192,30 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
  */
 export function judgeCandidate(input: VerdictInput): Verdict | null {
   if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
+  const b = input.viscosityB == null ? null : requirePositive("viscosityB", input.viscosityB);
+  const onWater = judgeOnWater(input);
+  return b === null || b <= VISCOSITY_B_NO_CORRECTION || !onWater ? onWater : qualifyForViscosity(onWater, b);
+}
+
+/** B as printed beside its limit: never "1.00 > 1". */
+const bText = (b: number) => fmtNumExact(b, [VISCOSITY_B_NO_CORRECTION], 2);
+
+/**
+ * A verdict on the water curve for a liquid with B above 1: `meets` and `oversized` become `viscosity-uncorrected`,
+ * `short` stays short with the reason; the catalogue and no-operating-point verdicts are unchanged.
+ */
+function qualifyForViscosity(v: Verdict, b: number): Verdict {
+  const f = viscosityFactors(b);
+  const why = `The pumped liquid's ANSI/HI 9.6.7 parameter B is ${bText(b)}, above ${VISCOSITY_B_NO_CORRECTION}: on it the pump gives less head, flow and efficiency than its water curve (at the BEP about ${fmtPct(f.head, 0)} of the head and flow and ${fmtPct(f.efficiency, 0)} of the efficiency, ${HI_VISCOSITY_SOURCE}).`;
+  if (v.status === "short") return { ...v, reasons: [...v.reasons, `${why} Corrected, it falls further short.`] };
+  if (v.status !== "meets" && v.status !== "oversized") return v;
+  return { status: "viscosity-uncorrected", edge: v.edge,
+    rule: `viscosity-uncorrected: a pump curve measured on water is judged on a liquid with ANSI/HI 9.6.7 parameter B above ${VISCOSITY_B_NO_CORRECTION} only once corrected for viscosity (B = ${bText(b)})`,
+    reasons: [`${why} The water curve was not corrected for viscosity: this pump cannot be signed off as is; correct the curve (or ask the maker for one on this liquid) and judge again.`,
+      ...v.reasons.map((r) => `On the water curve (${v.status === "meets" ? "meets the duty" : "oversized"}): ${r}`)] };
+}
+
+function judgeOnWater(input: VerdictInput): Verdict | null {
   const tol = checkTolerance(input.tolerance);
   const qd = input.dutyFlow === null || input.dutyFlow === undefined ? null : requirePositive("dutyFlow", input.dutyFlow);
   if (!Array.isArray(input.edges) || input.edges.length === 0) throw new EngineInputError("edges", "needs at least one band edge");
@@ -251,6 +286,7 @@ export function verdictLabel(status: VerdictStatus): string {
     case "oversized": return "oversized";
     case "outside-catalogue": return "outside the catalogue";
     case "no-operating-point": return "no operating point";
+    case "viscosity-uncorrected": return "water curve, not corrected for viscosity";
     default: throw new EngineInputError("status", `must be one of ${VERDICT_STATUSES.join(", ")}`);
   }
 }

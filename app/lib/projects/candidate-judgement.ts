@@ -189,14 +189,17 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   return out;
 }
 
-/** The verdict on the band (worst edge), with savings when oversized. */
-export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number; head: number } | null, tolerance: { minus: number; plus: number }, catalogue: CatalogueLimits | undefined): Verdict | null {
+/**
+ * The verdict on the band (worst edge), with savings when oversized on the water curve; `viscosityB` (dimensionless,
+ * ANSI/HI 9.6.7: viscosity-check.ts) qualifies it for a liquid more viscous than the curve's water.
+ */
+export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number; head: number } | null, tolerance: { minus: number; plus: number }, catalogue: CatalogueLimits | undefined, viscosityB: number | null = null): Verdict | null {
   const edges = band.map((b) => ({ name: b.edge, flow: b.flow, head: b.head, noPointReason: b.reason ?? undefined }));
   const first = judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue });
-  if (first?.status !== "oversized" || !duty) return first;
+  if (first?.status !== "oversized" || !duty) return viscosityB == null ? first : judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue, viscosityB });
   const worst = band.reduce((a, b) => ((b.flow ?? Infinity) < (a.flow ?? Infinity) ? b : a));
   const governing = systemHeadFunction(ctx.prepared, bandEdges(ctx.mode).find((e) => e.name === worst.edge)!.which)(duty.flow);
-  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }, catalogue) });
+  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }, catalogue), viscosityB });
 }
 
 /**

@@ -23,6 +23,7 @@ import {
   trimForDuty,
   DEFAULT_FLOW_TOLERANCE,
   DEFAULT_IE_CLASS,
+  LAMINAR_MAX_RE,
   type CatalogueLimits,
   type EngineWarning,
   type Verdict,
@@ -35,6 +36,7 @@ export * from "./system-input";
 export * from "./candidate-input";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, fmtPctExact, qt, qtPair } from "~/engine/quantityText";
+import { viscosityCheck } from "./viscosity-check";
 
 export type RunReport = {
   name: string;
@@ -127,6 +129,9 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     const warnings = wText(res.warnings);
     if (res.velocity > guide.max) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.max).join(" is above the usual ")} for a ${r.side} line.`);
     if (res.velocity < guide.min) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.min).join(" is below the usual ")} for a ${r.side} line.`);
+    const fittings = r.fittings.filter((f) => f.count > 0).length;
+    if (fittings && res.reynolds > 0 && res.reynolds < LAMINAR_MAX_RE)
+      warnings.push(`${r.name || `A ${r.side} run`}: Re ${fmtNumExact(res.reynolds, [LAMINAR_MAX_RE], 0)} at the duty flow is below ${LAMINAR_MAX_RE} (laminar), but the catalogue fittings' K values (Crane TP-410) are for turbulent flow: at low Re a fitting's K grows roughly as 1/Re (3-K method, Darby, from memory), so this run's fittings loss is underestimated.`);
     return { name: r.name, side: r.side, velocity: res.velocity, reynolds: res.reynolds, frictionFactor: res.frictionFactor, regime: res.regime, headLoss: res.headLoss, warnings };
   });
   const npsha = curve.flows.map((q) => {
@@ -187,6 +192,8 @@ export type CandidateEvaluation = {
   npsh: NpshJudgement;
   /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
   verdict: Verdict | null;
+  /** ANSI/HI 9.6.7 parameter B of a custom liquid at one pump's water BEP (dimensionless); null for water or when unknown. */
+  viscosityB: number | null;
   warnings: string[];
 };
 
@@ -328,7 +335,12 @@ export function evaluateCandidate(
         trimRatio: adj.method === "trim" ? ratio : null,
       }
     : adj.method === "speed" ? { speedRatio: ratio } : adj.method === "trim" ? { trimRatio: ratio } : undefined;
-  const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue);
+  // The water curve on the system's liquid (ANSI/HI 9.6.7 B at one pump's water BEP and the speed in use).
+  const perPumpOp = op.flow != null && op.head != null ? { flow: adj.arrangement === "parallel" ? op.flow / n : op.flow, head: adj.arrangement === "series" ? op.head / n : op.head } : null;
+  const visc = viscosityCheck({ kind: input.fluid.kind, name: input.fluid.kind === "custom" ? input.fluid.name : "water", kinematicViscosity: prepared.fluid.kinematicViscosity },
+    curve, set.speed != null ? set.speed * (adj.method === "speed" ? ratio : 1) : null, perPumpOp);
+  warnings.push(...visc.warnings);
+  const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue, visc.b);
   return {
     status: op.status,
     message: op.message,
@@ -344,6 +356,7 @@ export function evaluateCandidate(
     band,
     npsh,
     verdict,
+    viscosityB: visc.b,
     warnings: [...new Set(warnings)],
   };
 }

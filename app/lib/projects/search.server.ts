@@ -268,5 +268,5 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
-const VERDICT_ORDER = ["meets", "oversized", "short", "no-operating-point", "outside-catalogue"] as const;
+const VERDICT_ORDER = ["meets", "oversized", "viscosity-uncorrected", "short", "no-operating-point", "outside-catalogue"] as const;
 const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
