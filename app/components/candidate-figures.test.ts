@@ -90,4 +90,11 @@ describe("the candidates table's judged figures read apart from their limits", (
     expect(cell(view(ok, 1.1), SI_UNITS, "NPSHa / NPSHr")).toBe("8.00 m / 4.00 m");
     expect(cell(view(ok, 1.1), SI_UNITS, "NPSH margin")).toBe("2.00 (ok)");
   });
+  it("NPSHa at or below zero without NPSHr decides at a corner: the band cell names NPSHa and the corner, in m and ft (made-up figures)", () => {
+    const v = view(ok, 1.1);
+    const c = v.candidates[0] as unknown as { result: { npsh: object } };
+    c.result.npsh = { status: "cavitation-risk", marginRatio: null, at: "least lift, aged pipe", available: -1.18, rule: "rule", requiredMargin: 1.1 };
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("— — NPSHa -1.18 m at least lift, aged pipe (cavitation-risk)");
+    expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("— — NPSHa -3.87 ft at least lift, aged pipe (cavitation-risk)"); // 1.18 m / 0.3048
+  });
 });

@@ -3,6 +3,7 @@
 // product concludes at the edges"). Pure; used by CandidateTable in ./workbench.tsx and the search page's rows.
 import { POR_FRACTION } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import type { NpshJudgement } from "~/lib/projects/candidate-judgement";
 
 /**
  * A flow as a percentage of BEP flow: whole percent, with the decimals it needs outside the POR not to read as its end ("69.96 %", not "70 %").
@@ -39,4 +40,28 @@ export function npshPairText(units: UnitChoice, available: number, required: num
  */
 export function npshMarginText(ratio: number | null | undefined, requiredMargin: number | null | undefined): string {
   return fmtNumExact(ratio, [1, requiredMargin], 2);
+}
+
+/**
+ * Where the NPSH status over the band is decided: "lowest 0.96 at least lift, aged pipe", or where NPSHa at or below
+ * zero decides without NPSHr, "NPSHa -1.18 m at least lift, aged pipe" (never read as zero).
+ * @param units the reader's units
+ * @param n the judgement (`npshOverBand`): ratio (dimensionless) or NPSHa (m) where it is decided
+ */
+export function npshLowestText(units: UnitChoice, n: NpshJudgement): string {
+  return n.marginRatio == null && n.available != null
+    ? `NPSHa ${fmtQExact(units, "head", n.available, [0])} at ${n.at}`
+    : `lowest ${npshMarginText(n.marginRatio, n.requiredMargin)} at ${n.at}`;
+}
+
+/**
+ * Every point NPSH was judged at, for the cell's title: "design point 1.63; least lift, new pipe 1.48; …"
+ * (NPSHa in the reader's units where NPSHr is unknown); empty for selections frozen before the corners were kept.
+ * @param units the reader's units
+ * @param n the judgement (`npshOverBand`)
+ */
+export function npshPointsText(units: UnitChoice, n: NpshJudgement): string {
+  return (n.judgedAt ?? [])
+    .map((p) => `${p.at} ${p.marginRatio != null ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQExact(units, "head", p.available, [0])}` : "—"}`)
+    .join("; ");
 }

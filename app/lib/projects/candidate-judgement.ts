@@ -50,6 +50,19 @@ export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: 
       ];
 }
 
+/**
+ * Where NPSH is judged besides the design point: every level × pipe combination. The band's edges are not enough: at
+ * least lift the pump pulls the most flow and through an aged suction loses the most head, a corner neither edge is
+ * (the flow verdict needs only the edges: the system head rises with the level and with the roughness at every flow).
+ */
+export function npshCorners(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
+  if (mode !== "open") return bandEdges(mode);
+  const corners: { name: string; which: SystemCase }[] = [];
+  for (const level of ["min", "max"] as const) for (const roughness of ["new", "aged"] as const)
+    corners.push({ name: `${level === "min" ? "least" : "most"} lift, ${roughness} pipe`, which: { level, roughness } });
+  return corners;
+}
+
 /** The demanding edge (most lift, aged pipe): the system head that governs speed/trim solves. */
 export const GOVERNING_CASE: SystemCase = { level: "max", roughness: "aged" };
 export const governingName = (mode: "open" | "closed-loop") => (mode === "open" ? "most lift, aged pipe" : "aged pipe");
@@ -79,41 +92,59 @@ export type BandPoint = {
   efficiency: number | null;
   shaftPower: number | null;
   npshMarginRatio: number | null;
+  /** NPSHa and NPSHr there, m (null without an operating point; NPSHr null where the curve has none); absent in selections frozen before they were kept. */
+  npshAvailable?: number | null;
+  npshRequired?: number | null;
   reason: string | null;
 };
 
-/** NPSH judged where the pump runs: the design point and each edge of the band; the lowest margin decides. */
+/** NPSH at one point where the pump runs: NPSHa, NPSHr (m; null where unknown) and their ratio (dimensionless). */
+export type NpshPoint = { at: string; flow: number | null; available: number | null; required: number | null; marginRatio: number | null };
+
+/** NPSH judged where the pump runs: the design point and each corner of the band; the lowest margin decides. */
 export type NpshJudgement = {
   status: NpshStatus;
-  /** The lowest NPSHa / NPSHr found (dimensionless), and where; null when NPSHr is known nowhere. */
+  /** NPSHa / NPSHr (dimensionless) where the status is decided: the lowest found; null when NPSHr is known nowhere, or where NPSHa ≤ 0 decides without it. */
   marginRatio: number | null;
   at: string | null;
+  /** NPSHa there, m; absent in selections frozen before it was kept. */
+  available?: number | null;
   /** The rule with its threshold, in words. */
   rule: string;
   /** The wanted NPSHa / NPSHr (dimensionless); absent in selections frozen before it was kept. */
   requiredMargin?: number;
+  /** Every point judged, the design point first; absent in selections frozen before the band's four corners were judged. */
+  judgedAt?: NpshPoint[];
 };
 
 /**
- * The NPSH status over the design point and the band's edges (common practice: NPSHa below NPSHr is a
- * cavitation risk; below the wanted margin ratio, a low margin). A pump that runs at least lift pulls
- * the most flow and needs the most NPSH, so the design point alone can read "ok" while an edge cavitates.
- * @param design margin ratio at the design operating point (dimensionless), null when unknown
- * @param band the band's operating points with their margin ratios
+ * The NPSH status over the design point and the band's corners (common practice: NPSHa below NPSHr is a
+ * cavitation risk; below the wanted margin ratio, a low margin; NPSHa at or below zero cavitates whatever the
+ * pump, NPSHr known or not). A pump that runs at least lift pulls the most flow and needs the most NPSH, and an
+ * aged suction loses the most head, so the design point alone can read "ok" while a corner cavitates.
+ * @param design NPSH at the design operating point, null without one
+ * @param corners NPSH at each level × pipe combination of the band (`npshCorners`)
  * @param requiredMargin the wanted NPSHa / NPSHr (dimensionless, > 1)
  */
-export function npshOverBand(design: number | null, band: readonly BandPoint[], requiredMargin: number): NpshJudgement {
-  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each edge of the band (below 1: cavitation risk)`;
-  let marginRatio: number | null = null;
-  let at: string | null = null;
-  for (const [where, m] of [["design point", design] as const, ...band.map((b) => [b.edge, b.npshMarginRatio] as const)]) {
-    if (m != null && (marginRatio === null || m < marginRatio)) {
-      marginRatio = m;
-      at = where;
-    }
+export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number): NpshJudgement {
+  const where = corners.map((c) => c.at).join("; ");
+  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where}); below 1, or NPSHa at or below zero whatever the pump: cavitation risk`;
+  const judgedAt = design ? [design, ...corners] : [...corners];
+  let lowest: NpshPoint | null = null;
+  let zero: NpshPoint | null = null;
+  for (const p of judgedAt) {
+    if (p.marginRatio != null && (lowest === null || p.marginRatio < lowest.marginRatio!)) lowest = p;
+    if (p.available != null && p.available <= 0 && (zero === null || p.available < zero.available!)) zero = p;
   }
-  return { status: npshStatus(marginRatio, requiredMargin), marginRatio, at, rule, requiredMargin };
+  // NPSHa ≤ 0 decides only where no ratio already says cavitation (with NPSHr known there, its ratio is ≤ 0 < 1).
+  const byZero = zero !== null && !(lowest !== null && lowest.marginRatio! < 1);
+  const decides = byZero ? zero : lowest;
+  const status: NpshStatus = byZero ? "cavitation-risk" : npshStatus(lowest?.marginRatio ?? null, requiredMargin);
+  return { status, marginRatio: decides?.marginRatio ?? null, at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt };
 }
+
+/** A band point's NPSH as judged (`npshOverBand`). */
+export const npshPointOf = (b: BandPoint): NpshPoint => ({ at: b.edge, flow: b.flow, available: b.npshAvailable ?? null, required: b.npshRequired ?? null, marginRatio: b.npshMarginRatio });
 
 export type MotorFigures = {
   suggestedRating: number | null;
@@ -147,20 +178,28 @@ type Ctx = {
 
 /** Operating points and figures at both edges of the band. */
 export function bandPoints(ctx: Ctx): BandPoint[] {
+  return bandEdges(ctx.mode).map(({ name, which }) => pointAt(ctx, name, which));
+}
+
+/** NPSH at every corner of the band (`npshCorners`): the band's edges as solved, the other corners solved here. */
+export function npshCornerPoints(ctx: Ctx, band: readonly BandPoint[]): NpshPoint[] {
+  return npshCorners(ctx.mode).map(({ name, which }) => npshPointOf(band.find((b) => b.edge === name) ?? pointAt(ctx, name, which)));
+}
+
+/** The operating point and its figures on one level × pipe combination. */
+function pointAt(ctx: Ctx, name: string, which: SystemCase): BandPoint {
   const rho = ctx.prepared.fluid.density;
   const k = ctx.arrangement === "single" ? 1 : ctx.n;
-  return bandEdges(ctx.mode).map(({ name, which }) => {
-    const op = solveOperatingPoint(ctx.combined, systemHeadFunction(ctx.prepared, which));
-    if (op.flow == null || op.head == null) return { edge: name, flow: null, head: null, efficiency: null, shaftPower: null, npshMarginRatio: null, reason: noPointReason(op) };
-    const q1 = ctx.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: ctx.n }, ctx.curve) : op.flow;
-    const inCurve = q1 >= ctx.curve.flowMin && q1 <= ctx.curve.flowMax;
-    const p = inCurve ? shaftPowerAt(ctx.curve, q1, rho) : null;
-    const nr = inCurve ? npshrAt(ctx.curve, q1) : null;
-    const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
-      staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
-    return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
-      shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, reason: null };
-  });
+  const op = solveOperatingPoint(ctx.combined, systemHeadFunction(ctx.prepared, which));
+  if (op.flow == null || op.head == null) return { edge: name, flow: null, head: null, efficiency: null, shaftPower: null, npshMarginRatio: null, npshAvailable: null, npshRequired: null, reason: noPointReason(op) };
+  const q1 = ctx.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: ctx.n }, ctx.curve) : op.flow;
+  const inCurve = q1 >= ctx.curve.flowMin && q1 <= ctx.curve.flowMax;
+  const p = inCurve ? shaftPowerAt(ctx.curve, q1, rho) : null;
+  const nr = inCurve ? npshrAt(ctx.curve, q1) : null;
+  const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
+    staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
+  return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
+    shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, npshAvailable: na, npshRequired: nr, reason: null };
 }
 
 /**

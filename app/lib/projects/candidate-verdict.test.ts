@@ -123,7 +123,7 @@ describe("the band and the verdict on a system", () => {
   });
 });
 
-describe("NPSH where the pump runs: the design point and both band edges (common practice: NPSHa < NPSHr is a cavitation risk)", () => {
+describe("NPSH where the pump runs: the design point and the band's corners (common practice: NPSHa < NPSHr is a cavitation risk)", () => {
   // An invented curve with NPSHr rising with flow; 10–18 m static lift, so at least lift the pump runs out to about 55 m³/h.
   const pts = [[0, 30, null, 1.5], [10, 29.5, 0.4, 1.8], [20, 28, 0.6, 2.2], [30, 25.5, 0.7, 3.0], [40, 22, 0.72, 4.2], [50, 17, 0.66, 5.8], [60, 10, 0.5, 8.0]]
     .map(([q, h, e, n]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: n }));
@@ -137,7 +137,7 @@ describe("NPSH where the pump runs: the design point and both band edges (common
     expect(least.npshMarginRatio!).toBeLessThan(1);
     expect(r.npsh).toMatchObject({ status: "cavitation-risk", at: "least lift, new pipe" });
     expect(r.npsh.marginRatio).toBe(least.npshMarginRatio);
-    expect(r.npsh.rule).toContain("at the design point and at each edge of the band");
+    expect(r.npsh.rule).toContain("at the design point and at each corner of the band");
     expect(r.warnings.some((w) => w.startsWith("NPSH at least lift, new pipe: margin ratio 0.98, NPSHa below NPSHr: cavitation risk"))).toBe(true);
   });
 

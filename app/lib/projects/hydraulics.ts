@@ -34,8 +34,8 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 
 export * from "./system-input";
 export * from "./candidate-input";
-import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
-import { fmtNumExact, fmtPctExact, qt, qtPair } from "~/engine/quantityText";
+import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
+import { fmtNumExact, fmtPctExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck } from "./viscosity-check";
 
 export type RunReport = {
@@ -106,6 +106,21 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
 
 const wText = (w: EngineWarning[]) => w.map((x) => x.message);
 
+/**
+ * NPSHa = (p_surface − p_vapour)/(ρ g) + z_suction − h_f is at or below zero already at zero flow (no friction) when
+ * p_surface − p_vapour ≤ −ρ g z_suction: a suction lift beyond what the surface pressure holds, or a liquid boiling at
+ * its surface. No pump runs there without cavitating, whatever its NPSHr: the warning, with its numbers; null otherwise.
+ */
+export function npshaAtZeroFlow(input: SystemInput, fluid: { density: number; vaporPressure: number }): string | null {
+  const rhoG = fluid.density * 9.80665;
+  const net = input.suctionSurfacePressure - fluid.vaporPressure;
+  const lift = -rhoG * input.suctionStaticHead;
+  const npsha = net / rhoG + input.suctionStaticHead;
+  if (npsha > 0) return null;
+  const [netText, liftText] = qtPair("pressure", net, lift);
+  return `NPSH available is ${qtExact("head", npsha, [0])} already at zero flow, not above zero: the surface pressure ${qt("pressure", input.suctionSurfacePressure)} less the vapour pressure ${qt("pressure", fluid.vaporPressure)} is ${netText}, not above −ρ g z_suction ${liftText} for the suction static head ${qt("head", input.suctionStaticHead)}. Any pump cavitates here whatever its NPSHr: raise the liquid level or the surface pressure, lower the pump, or cool the liquid.`;
+}
+
 /** System curve, band, per-run figures at the duty flow, and NPSHa over the flow range. */
 export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; points?: number } = {}): SystemEvaluation {
   const spec = systemSpec(input);
@@ -114,6 +129,7 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
   const curve = systemCurve(prepared, { flowMax, points: opts.points ?? 41 });
   const dutyFlow = input.duty?.flow ?? flowMax / 1.6;
   const fluid = prepared.fluid;
+  const warnings: string[] = [];
   const sideIndex = { suction: 0, discharge: 0 };
   const runs: RunReport[] = input.runs.map((r) => {
     const preparedRun = prepared[r.side][sideIndex[r.side]++];
@@ -138,6 +154,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     const hf = suctionLoss(prepared, q, "aged").headLoss;
     return { flow: q, y: (input.suctionSurfacePressure - fluid.vaporPressure) / (fluid.density * 9.80665) + input.suctionStaticHead - hf };
   });
+  const noSuction = npshaAtZeroFlow(input, fluid);
+  if (noSuction) warnings.push(noSuction);
   return {
     flows: curve.flows,
     design: curve.head,
@@ -146,7 +164,7 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     pressure: curve.pressure,
     dutyFlow,
     runs,
-    warnings: [...wText(prepared.warnings), ...wText(curve.warnings)],
+    warnings: [...wText(prepared.warnings), ...wText(curve.warnings), ...warnings],
     fluid: { density: fluid.density, kinematicViscosity: fluid.kinematicViscosity, vaporPressure: fluid.vaporPressure },
     npsha,
     dutyCheck: dutyCheckOf(input, prepared),
@@ -188,7 +206,7 @@ export type CandidateEvaluation = {
   por: { minFlow: number; maxFlow: number } | null;
   /** Operating points at both edges of the system band (least flow edge decides the verdict). */
   band: BandPoint[];
-  /** NPSH over the design point and the band's edges (the lowest margin decides). */
+  /** NPSH over the design point and the band's corners (the lowest margin decides; NPSHa ≤ 0 cavitates whatever the pump). */
   npsh: NpshJudgement;
   /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
   verdict: Verdict | null;
@@ -320,9 +338,12 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead } };
   const band = bandPoints(ctx);
-  const npsh = npshOverBand(figures?.npshMarginRatio ?? null, band, input.npshMargin);
+  const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
+  const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
-    warnings.push(`NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
+    warnings.push(npsh.marginRatio == null
+      ? `NPSH at ${npsh.at}: NPSHa ${qtExact("head", npsh.available ?? NaN, [0])} is not above zero: cavitation risk whatever the pump's NPSHr`
+      : `NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat
     ? {

@@ -6,8 +6,8 @@ import { cycleWarnings, stepVerdict, stepWarnings } from "./energy";
 const row = (xs: unknown[]) => xs;
 
 /**
- * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, the duty cycle
- * step by step, the life-cycle cost year by year, and figures (the cycle's totals and life-cycle cost among them).
+ * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, NPSH at the design
+ * point and the band's corners, the duty cycle step by step, the life-cycle cost year by year, and figures (the cycle's totals and life-cycle cost among them).
  * SI units named in every header; money in the workspace's currency, named in the unit column.
  */
 export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
@@ -24,6 +24,13 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   lines.push([]);
   lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", "shaft_power_w", "npsh_margin_ratio", "no_operating_point_reason"]));
   for (const b of f.result.band ?? []) lines.push(row(["band", b.edge, b.flow, b.head, b.efficiency, b.shaftPower, b.npshMarginRatio, b.reason]));
+  const npshPoints = f.result.npsh?.judgedAt;
+  if (npshPoints?.length) {
+    // Every point NPSH was judged at: the design point and each corner of the band (selections frozen before the corners have none).
+    lines.push([]);
+    lines.push(row(["section", "at", "flow_m3s", "npsha_m", "npshr_m", "npsh_margin_ratio"]));
+    for (const p of npshPoints) lines.push(row(["npsh", p.at, p.flow, p.available, p.required, p.marginRatio]));
+  }
   energySections(f, lines);
   lines.push([]);
   lines.push(row(["section", "figure", "value", "unit"]));
@@ -47,10 +54,12 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("npsh_available", fig?.npshAvailable, "m");
   add("npsh_required", fig?.npshRequired, "m");
   add("npsh_margin_ratio", fig?.npshMarginRatio, "1");
-  // Over the design point and the band's edges (selections saved before this was judged have none).
+  // Over the design point and the band's corners (selections saved before this was judged have none; before the corners, the edges only).
   add("npsh_status_over_band", f.result.npsh?.status ?? null, "");
   add("npsh_lowest_margin_ratio", f.result.npsh?.marginRatio ?? null, "1");
   add("npsh_lowest_at", f.result.npsh?.at ?? null, "");
+  add("npsh_available_at_lowest", f.result.npsh?.available ?? null, "m");
+  add("npsh_rule", f.result.npsh?.rule ?? null, "");
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
   add("motor_rating", fig?.motor?.rating ?? null, "W");

@@ -73,7 +73,11 @@ const Result = obj({
   figures: v.nullable(Figures),
   por: v.nullish(obj({ minFlow: num, maxFlow: num })),
   band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, reason: v.nullable(str) }))),
-  npsh: v.optional(obj({ status: str, marginRatio: numOrNull, at: v.nullable(str), rule: str })),
+  npsh: v.optional(obj({
+    status: str, marginRatio: numOrNull, at: v.nullable(str), rule: str, available: nullishNum,
+    /** Absent in selections frozen before the band's four corners were judged. */
+    judgedAt: v.optional(v.array(obj({ at: str, flow: numOrNull, available: numOrNull, required: numOrNull, marginRatio: numOrNull }))),
+  })),
   /** Absent in selections frozen before verdicts; null without a duty. */
   verdict: v.optional(v.nullable(obj({ status: v.picklist(VERDICT_STATUSES), rule: str, reasons: strings, edge: v.nullish(str) }))),
   warnings: strings,
@@ -126,11 +130,11 @@ const LABELS: Record<string, string> = {
   reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input",
-  energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
+  judgedAt: "points NPSH is judged at", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
 const ITEMS: Record<string, string> = {
-  ...INPUT_ITEMS, points: "curve point", curve: "curve as used, point", band: "band edge", steps: "step", reasons: "reason", yearly: "year",
+  ...INPUT_ITEMS, judgedAt: "NPSH point", points: "curve point", curve: "curve as used, point", band: "band edge", steps: "step", reasons: "reason", yearly: "year",
   flows: "flows, point", design: "design curve, point", low: "low-level curve, point", high: "high-level curve, point", npsha: "NPSH available, point",
 };
 const QUANTITIES: Record<string, Quantity> = { ...INPUT_QUANTITIES, motorRating: "power", impellerDiameter: "diameter" };
