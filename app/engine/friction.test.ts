@@ -39,6 +39,19 @@ describe("regimes and warnings", () => {
     expect(r.warnings.map((w) => w.code)).toContain("transition-flow");
     expect(r.frictionFactor).toBeGreaterThan(64 / 3000);
   });
+  it("the transition warning says what each method gives there: turbulent ones the higher f, Churchill about 64/Re near Re 2000", () => {
+    const msg = (re: number, m: "colebrook" | "swamee-jain" | "haaland" | "churchill") => frictionFactorDetailed(re, 0, m).warnings.find((w) => w.code === "transition-flow")!.message;
+    // Re 2001, smooth: 64/Re = 0.0320; Colebrook 0.0494 (python fluids 1.0.22 Colebrook: 0.04944); Churchill 0.0320 (fluids Churchill_1977 0.03203: about 64/Re there).
+    for (const m of ["colebrook", "swamee-jain", "haaland"] as const) {
+      expect(msg(2001, m)).toMatch(/above the laminar 64\/Re = 0\.0320, the higher, conservative side/);
+    }
+    expect(msg(2001, "colebrook")).toContain("f = 0.0494");
+    const ch = msg(2001, "churchill");
+    expect(ch).toContain("f = 0.0320, against the laminar 64/Re = 0.0320 and Colebrook's turbulent 0.0494: below the turbulent value, so not the conservative side");
+    expect(ch).not.toMatch(/, the conservative side|used, conservative/);
+    // Re 3999, smooth: Churchill 0.0406 is at or above Colebrook's 0.0399 (python fluids 1.0.22: 0.04059, 0.03991): there the word is true.
+    expect(msg(3999, "churchill")).toContain("at or above the turbulent value, the conservative side");
+  });
   it("outside a correlation's stated range: a result plus a warning, never silence", () => {
     const r = frictionFactorDetailed(1e5, 0.03, "swamee-jain"); // ε/D above 1e-2
     expect(r.frictionFactor).toBeGreaterThan(0);

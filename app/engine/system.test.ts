@@ -78,6 +78,30 @@ describe("system curve and band", () => {
   });
 });
 
+describe("warnings of several runs", () => {
+  it("two runs out of the same range each keep their warning, naming the run (one each, not one per flow)", () => {
+    // ε/D = 6 mm / 0.1 m = 0.06 aged: above every correlation's stated ε/D range (Colebrook's to 0.05, registry.ts).
+    const run = (name: string) => ({ name, length: 10, diameter: 0.1, roughness: 0.045e-3, agedRoughness: 6e-3 });
+    const c = systemCurve({ fluid, staticHead: 10, suction: [run("Suction line")], discharge: [run("Rising main")] }, { flowMax: 0.02, points: 5 });
+    const eps = c.warnings.filter((w) => w.code === "outside-validity" && w.parameter === "ε/D").map((w) => w.message);
+    expect(eps).toHaveLength(2);
+    expect(eps[0]).toMatch(/^Suction line: .*ε\/D = 0\.06 is outside/);
+    expect(eps[1]).toMatch(/^Rising main: .*ε\/D = 0\.06 is outside/);
+  });
+  it("two runs with fittings beyond the table's sizes each keep theirs too", () => {
+    const run = (name: string) => ({ name, length: 10, diameter: 0.1, roughness: 0.045e-3, fittings: [{ id: "elbow-90-standard" }], nominal: "40" });
+    const c = systemCurve({ fluid, staticHead: 10, suction: [run("Suction line")], discharge: [run("Rising main")] }, { flowMax: 0.02, points: 5 });
+    const byRun = (name: string) => c.warnings.filter((w) => w.parameter === "nominal" && w.message.startsWith(`${name}: `));
+    expect(byRun("Suction line").length).toBeGreaterThan(0);
+    expect(byRun("Rising main").length).toBe(byRun("Suction line").length);
+  });
+  it("roughness at or above the inner diameter is refused naming the run and the field, not ε/D alone", () => {
+    const spec = (aged: number): SystemSpec => ({ fluid, staticHead: 10, discharge: [{ name: "Rising main", length: 10, diameter: 0.001, roughness: 0.045e-3, agedRoughness: aged }] });
+    expect(() => systemHead(spec(0.005), 0.001, { roughness: "aged" })).toThrow("discharge[0].agedRoughness: must be below the inner diameter of Rising main, 0.001 m (got 0.005 m, ε/D = 5)");
+    expect(() => systemHead(spec(0.5e-3), 0.001, { roughness: "aged" })).not.toThrow(); // ε/D 0.5: below 1, computed with a range warning
+  });
+});
+
 describe("fast system head function", () => {
   it("gives the same head as systemHead for every case and model (1e-14 relative)", () => {
     const cases = [{}, { level: "min" as const, roughness: "aged" as const }, { level: "max" as const }];

@@ -99,6 +99,10 @@ function prepareRun(run: PipeRunSpec, where: string, lossModel: string, warnings
   const diameter = requirePositive(`${where}.diameter`, run.diameter);
   const roughness = requireNonNegative(`${where}.roughness`, run.roughness);
   const agedRoughness = requireNonNegative(`${where}.agedRoughness`, run.agedRoughness ?? roughness);
+  // ε/D must be below 1 (headLoss.ts): said here with the run, not later as a bare relativeRoughness.
+  for (const [k, e] of [["roughness", roughness], ["agedRoughness", agedRoughness]] as const) {
+    if (e >= diameter) throw new EngineInputError(`${where}.${k}`, `must be below the inner diameter${run.name ? ` of ${run.name},` : ""} ${diameter} m (got ${e} m, ε/D = ${+(e / diameter).toPrecision(3)})`);
+  }
   const fk = sumKDetailed(run.fittings ?? [], diameter, run.nominal);
   for (const w of fk.warnings) warnings.push({ ...w, message: `${run.name ?? where}: ${w.message}` });
   const k = requireNonNegative(`${where}.minorK`, run.minorK ?? 0) + fk.k;
@@ -186,10 +190,13 @@ function runsLoss(sys: PreparedSystem, runs: PreparedRun[], flow: number, aged: 
       minorK: r.k, kinematicViscosity: sys.fluid.kinematicViscosity, model });
     headLoss += res.headLoss;
     out.push(res);
-    for (const w of res.warnings) warnings.push({ ...w, message: `${r.name}: ${w.message}` });
+    for (const w of res.warnings) warnings.push(runWarning(r, w));
   }
   return { headLoss, runs: out, warnings };
 }
+
+/** A run's loss warning, its message led by the run's name. */
+const runWarning = (r: PreparedRun, w: EngineWarning): EngineWarning => ({ ...w, message: `${r.name}: ${w.message}` });
 
 /**
  * Head loss on the suction side at a flow (for NPSHa).
@@ -333,13 +340,20 @@ export function systemCurve(
   if (n < 2 || n > 10_000) throw new EngineInputError("points", "must be between 2 and 10000");
   const flows: number[] = [];
   for (let i = 0; i < n; i++) flows.push(flowMin + ((flowMax - flowMin) * i) / (n - 1));
-  const seen = new Set<string>();
+  // Each warning once per source: the prepared system's own (the same objects at every flow) once each, a run's
+  // once per code and parameter of that run (two runs out of the same range each keep their warning).
+  const seen = new Set<unknown>();
   const warnings: EngineWarning[] = [];
+  const note = (key: unknown, w: () => EngineWarning) => {
+    if (!seen.has(key)) { seen.add(key); warnings.push(w()); }
+  };
   const at = (c: SystemCase) => flows.map((q) => {
     const r = systemHead(sys, q, c);
-    for (const w of r.warnings) {
-      const key = `${w.code}|${w.parameter ?? ""}`;
-      if (!seen.has(key)) { seen.add(key); warnings.push(w); }
+    for (const w of sys.warnings) note(w, () => w);
+    for (const [side, results, runs] of [["suction", r.suctionRuns, sys.suction], ["discharge", r.dischargeRuns, sys.discharge]] as const) {
+      results.forEach((res, i) => {
+        for (const w of res.warnings) note(`${side}[${i}]|${w.code}|${w.parameter ?? ""}`, () => runWarning(runs[i], w));
+      });
     }
     return r.head;
   });

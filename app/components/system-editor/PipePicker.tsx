@@ -27,7 +27,7 @@ export function searchPipeTables(query: string, tables: readonly PipeTable[] = P
   });
 }
 
-export function PipePicker({ index, table, nominal, unitSystem, error }: { index: number; table: string; nominal: string; unitSystem: UnitChoice; error?: string }) {
+export function PipePicker({ index, table, nominal, unitSystem, error, onTableChange }: { index: number; table: string; nominal: string; unitSystem: UnitChoice; error?: string; onTableChange?: (tableId: string) => void }) {
   const [query, setQuery] = useState("");
   const [tableId, setTableId] = useState(table);
   const [size, setSize] = useState(nominal);
@@ -60,6 +60,7 @@ export function PipePicker({ index, table, nominal, unitSystem, error }: { index
           value={tableId}
           onChange={(e) => {
             setTableId(e.target.value);
+            onTableChange?.(e.target.value);
             const next = PIPE_TABLES.find((t) => t.id === e.target.value);
             if (!next?.sizes.some((s) => s.nominal === size)) setSize("");
           }}

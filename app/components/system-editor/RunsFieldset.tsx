@@ -1,6 +1,7 @@
 // The pipe runs of the editor: one fieldset per run (table size or inner diameter, length,
 // material, roughness, fittings), remove on save, and the buttons that add a run.
-import { EDITOR_FITTINGS, MATERIAL_OPTIONS } from "~/lib/projects/system-form";
+import { useState } from "react";
+import { EDITOR_FITTINGS, MATERIAL_OPTIONS, materialForTable, roughnessHints } from "~/lib/projects/system-form";
 import { labelOf } from "~/lib/shared/units";
 import { PipePicker } from "./PipePicker";
 import { NumberField as In } from "./NumberField";
@@ -36,6 +37,12 @@ export function RunsFieldset({ f, errors, unitSystem }: FieldsetProps) {
 
 function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { r: SystemFormValues["runs"][number]; i: number }) {
   const u = (q: Parameters<typeof labelOf>[1]) => labelOf(unitSystem, q);
+  // The material follows the pipe table while it is the one shown by default (materialForTable, the form's own rule);
+  // once picked it stays. The roughness hints are the material's, at once.
+  const [material, setMaterial] = useState(r.material);
+  const [shown, setShown] = useState(r.materialShown);
+  const [table, setTable] = useState(r.table);
+  const hints = roughnessHints(material, table, unitSystem);
   return (
     <fieldset className="space-y-2 rounded-md border border-slate-200 p-3">
       <legend className="px-1 text-sm font-semibold">
@@ -52,24 +59,52 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
             <option value="discharge">discharge</option>
           </select>
         </div>
-        <PipePicker index={i} table={r.table} nominal={r.nominal} unitSystem={unitSystem} error={errors[`run.${i}.nominal`]} />
+        <PipePicker
+          index={i}
+          table={r.table}
+          nominal={r.nominal}
+          unitSystem={unitSystem}
+          error={errors[`run.${i}.nominal`]}
+          onTableChange={(id) => {
+            setTable(id);
+            const next = materialForTable(material, shown, id);
+            setMaterial(next);
+            if (shown) setShown(next);
+          }}
+        />
         <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
         <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
         <div>
           <label className="label" htmlFor={`f-run.${i}.material`}>
             Material
           </label>
-          <select id={`f-run.${i}.material`} name={`run.${i}.material`} defaultValue={r.material} className="field">
+          <select
+            id={`f-run.${i}.material`}
+            name={`run.${i}.material`}
+            value={material}
+            onChange={(e) => {
+              setMaterial(e.target.value);
+              setShown("");
+            }}
+            className="field"
+            aria-describedby={hints.mismatch ? `f-run.${i}.material-note` : undefined}
+          >
             {MATERIAL_OPTIONS.map((m) => (
               <option key={m.id} value={m.id}>
                 {m.name}
               </option>
             ))}
           </select>
+          <input type="hidden" name={`run.${i}.materialShown`} value={shown} />
+          {hints.mismatch ? (
+            <p id={`f-run.${i}.material-note`} className="text-xs text-duty-ink">
+              {hints.mismatch}
+            </p>
+          ) : null}
         </div>
         <In label="Extra ΣK" name={`run.${i}.extraK`} def={r.extraK} errors={errors} />
-        <In label="Roughness new" unit={u("roughness")} name={`run.${i}.roughness`} def={r.roughness} placeholder={r.roughnessPlaceholder} errors={errors} />
-        <In label="Roughness aged" unit={u("roughness")} name={`run.${i}.agedRoughness`} def={r.agedRoughness} placeholder={r.agedPlaceholder} errors={errors} />
+        <In label="Roughness new" unit={u("roughness")} name={`run.${i}.roughness`} def={r.roughness} placeholder={hints.roughness} errors={errors} />
+        <In label="Roughness aged" unit={u("roughness")} name={`run.${i}.agedRoughness`} def={r.agedRoughness} placeholder={hints.aged} errors={errors} />
       </div>
       <details className="text-sm" open={Object.keys(r.fittings).length > 0 || EDITOR_FITTINGS.some(([fid]) => errors[`run.${i}.fit.${fid}`])}>
         <summary className="cursor-pointer font-semibold">Fittings (Crane TP-410 K values)</summary>

@@ -29,7 +29,7 @@ import {
   type Verdict,
   type PumpCurve,
 } from "~/engine";
-import { flowMaxOf, systemSpec, type SystemInput } from "./system-input";
+import { flowMaxOf, runInputWarnings, systemSpec, type SystemInput } from "./system-input";
 import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn } from "./candidate-input";
 
 export * from "./system-input";
@@ -164,7 +164,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     pressure: curve.pressure,
     dutyFlow,
     runs,
-    warnings: [...wText(prepared.warnings), ...wText(curve.warnings), ...warnings],
+    // The curve's warnings hold the prepared system's own (fittings, ignored inputs) once each: not listed twice.
+    warnings: [...runInputWarnings(input), ...wText(curve.warnings), ...warnings],
     fluid: { density: fluid.density, kinematicViscosity: fluid.kinematicViscosity, vaporPressure: fluid.vaporPressure },
     npsha,
     dutyCheck: dutyCheckOf(input, prepared),

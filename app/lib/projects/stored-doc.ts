@@ -88,7 +88,10 @@ function problemOf(issue: v.BaseIssue<unknown>, words: DocWords): DocProblem {
   const last = keys[keys.length - 1];
   const base = { keys, path: keys.join("."), label: docPathLabel(keys, words) };
   if (issue.kind === "schema" && issue.received === "undefined") return { ...base, message: "Missing from the stored document.", stored: null };
-  const stored = storedText(issue.input, last, words);
+  // A check on a whole object forwarded to one of its keys (a run's roughness against its diameter) carries the object
+  // as its input: the value stored is the one at the key, in its path.
+  const at = issue.path?.length ? issue.path[issue.path.length - 1].value : issue.input;
+  const stored = storedText(at, last, words);
   // Our schemas' own messages are sentences already; valibot's defaults ("Invalid type: Expected …") are rewritten.
   if (!issue.message.startsWith("Invalid ")) return { ...base, message: issue.message, stored };
   if (issue.kind === "schema") return { ...base, message: `Should be ${typeWords(issue.expected ?? "")}.`, stored };

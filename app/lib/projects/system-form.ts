@@ -2,11 +2,11 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
-import { qt } from "~/engine/quantityText";
+import { qt, qtPair } from "~/engine/quantityText";
 import { countField, decimalField } from "../shared/decimal";
-import { renderDeep, unitOf, type UnitChoice } from "../shared/units";
+import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, SystemInputSchema, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessNotBelowDiameter, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -24,6 +24,9 @@ export const EDITOR_FITTINGS = [
   ["entrance-sharp", "Entrance (sharp)"],
   ["exit", "Exit into tank"],
 ] as const;
+
+/** Relative rounding of a value shown in a field at show()'s default five significant digits (half a unit in the fifth digit, with room). */
+const SHOWN_PRECISION = 1e-4;
 
 /** SI → display number, rounded to a sensible number of significant digits for a form field. */
 export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): string {
@@ -48,6 +51,26 @@ function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { option
 }
 
 export type FormLike = { get(name: string): FormDataEntryValue | null };
+
+/** A new run's material (newRun): the one a run has until the engineer or its pipe table gives another. */
+export const DEFAULT_MATERIAL = "steel";
+
+/**
+ * A run's material as sent: the pipe table's own (engine PipeTable.material) when a table is chosen and the material
+ * was left as the page showed it by default (`shown`: the editor's hidden `run.N.materialShown`, blank once the
+ * engineer picks a material) or not sent at all; otherwise the material picked. The editor applies the same rule as the
+ * table changes, so the roughness hints follow at once. Unknown materials are refused by the form.
+ */
+export function materialForTable(posted: string | null, shown: string | null, pipeTable: string): string {
+  const own = tableMaterial(pipeTable);
+  const leftAsShown = !posted || (!!shown && posted === shown);
+  return own && leftAsShown ? own : posted || DEFAULT_MATERIAL;
+}
+
+/** The material shown by default for a run (see materialForTable): its table's own, or the default without a table; blank when the engineer chose it. */
+export function materialShownFor(r: Pick<PipeRunInput, "pipeTable" | "material">): string {
+  return r.material === (tableMaterial(r.pipeTable) ?? DEFAULT_MATERIAL) ? r.material : "";
+}
 
 /**
  * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
@@ -91,15 +114,30 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
         errors[`${p}nominal`] = "Pick a size from this pipe table.";
       }
     } else diameter = si("diameter", `${p}diameter`, "the inner diameter");
-    const mat = (f.get(`${p}material`) ?? "steel").toString();
+    const mat = materialForTable(f.get(`${p}material`)?.toString() ?? null, f.get(`${p}materialShown`)?.toString() ?? null, pipeTable);
     let m: ReturnType<typeof materialOf> | null = null;
     try {
       m = materialOf(mat);
     } catch {
       errors[`${p}material`] = "Pick a material.";
     }
+    const typedAged = si("roughness", `${p}agedRoughness`, "the aged roughness", true);
     const roughness = si("roughness", `${p}roughness`, "the roughness", true) ?? m?.roughnessNew ?? 0;
-    const agedRoughness = si("roughness", `${p}agedRoughness`, "the aged roughness", true) ?? m?.roughnessAged ?? roughness;
+    let agedRoughness = typedAged ?? m?.roughnessAged ?? roughness;
+    // Equal at the five significant digits a field shows (show()): an aged value stored equal to the new one comes back
+    // a hair below it through other units (0.26 mm as 0.010236 in), and is read as equal.
+    if (agedRoughness < roughness && agedRoughness >= roughness * (1 - SHOWN_PRECISION)) agedRoughness = roughness;
+    // Pipe does not get smoother with age: an aged roughness below the new one is refused here (stored ones are computed
+    // with the new value, with a warning: system-input.ts runInputWarnings).
+    if (agedRoughness < roughness) {
+      const [aged, fresh] = qtPair("roughness", agedRoughness, roughness);
+      errors[`${p}agedRoughness`] ??= typedAged != null
+        ? `The aged roughness ${aged} is below the new ${fresh}: pipe roughens with age. Type at least ${fresh}.`
+        : `Left blank, the aged roughness is ${m?.name ?? "the material"}'s ${aged}, below the new ${fresh} typed: type an aged roughness of at least ${fresh}.`;
+    }
+    for (const [key, label, e] of [["roughness", "Roughness", roughness], ["agedRoughness", "Aged roughness", agedRoughness]] as const) {
+      if (diameter != null && diameter > 0 && e >= diameter) errors[`${p}${key}`] ??= roughnessNotBelowDiameter(label, e, diameter);
+    }
     const fittings = EDITOR_FITTINGS.map(([id, label]) => ({ id, count: countField(f.get(`${p}fit.${id}`), `${p}fit.${id}`, `the number of ${label.toLowerCase()}`, errors, MAX_FITTING_COUNT) ?? 0 })).filter((x) => x.count > 0);
     runs.push({
       side,
@@ -175,6 +213,22 @@ export function fieldFor(path: unknown[]): string {
   return String(a ?? "_form");
 }
 
+/**
+ * The roughness hints of a run in the editor, in the user's units: its material's new and aged values (the blank
+ * fields' values), and a note when the material is not its pipe table's (the system's warning says the same on save).
+ */
+export function roughnessHints(materialId: string, pipeTable: string, sys: UnitChoice): { roughness: string; aged: string; mismatch: string | null } {
+  const m = MATERIALS.find((x) => x.id === materialId);
+  const own = tableMaterial(pipeTable);
+  const t = own && own !== materialId ? MATERIALS.find((x) => x.id === own) : null;
+  const tableName = PIPE_TABLES.find((x) => x.id === pipeTable)?.name;
+  return {
+    roughness: m ? show(sys, "roughness", m.roughnessNew) : "",
+    aged: m ? show(sys, "roughness", m.roughnessAged) : "",
+    mismatch: t ? `${tableName} is ${t.name} (${show(sys, "roughness", t.roughnessNew)} ${labelOf(sys, "roughness")} new); this run's roughness is ${m?.name ?? materialId}'s.` : null,
+  };
+}
+
 /** A plain number for a field; blank for NaN (a stored value that is missing or not a number, stored-input.ts `editorInput`). */
 const plain = (x: number) => (Number.isFinite(x) ? String(x) : "");
 
@@ -215,11 +269,10 @@ export function systemFormValues(input: SystemInput, sys: UnitChoice) {
         diameter: r.pipeTable ? "" : show(sys, "diameter", r.diameter),
         diameterShown: show(sys, "diameter", r.diameter),
         material: r.material,
+        materialShown: materialShownFor(r),
         // Blank when equal to the material's value, so changing the material changes it.
         roughness: mat && Math.abs(mat.roughnessNew - r.roughness) < 1e-12 ? "" : show(sys, "roughness", r.roughness),
         agedRoughness: mat && Math.abs(mat.roughnessAged - r.agedRoughness) < 1e-12 ? "" : show(sys, "roughness", r.agedRoughness),
-        roughnessPlaceholder: mat ? show(sys, "roughness", mat.roughnessNew) : "",
-        agedPlaceholder: mat ? show(sys, "roughness", mat.roughnessAged) : "",
         length: show(sys, "length", r.length),
         extraK: plain(r.extraK),
         fittings: Object.fromEntries(r.fittings.map((x) => [x.id, x.count])) as Record<string, number>,

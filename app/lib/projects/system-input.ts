@@ -2,10 +2,10 @@
 // schema, the defaults of a new system and run, and what the engine needs from it (fluid, system
 // spec, the flow range to draw). Pure.
 import * as v from "valibot";
-import { fluidAt, innerDiameter, material as materialOf, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
+import { fluidAt, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
-import { qt } from "~/engine/quantityText";
+import { qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 
 // Largest magnitude of any number in a system, SI, as of any number typed (shared/decimal.ts).
@@ -24,7 +24,20 @@ export const FittingUseSchema = v.object({
   count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(MAX_FITTING_COUNT)),
 });
 
-export const PipeRunSchema = v.object({
+/** Roughness (new or aged) must stay below the run's inner diameter: ε/D ≥ 1 has no friction factor (engine headLoss.ts). The words of the schema and the editor's field. */
+export const roughnessNotBelowDiameter = (label: string, roughness: number, diameter: number) =>
+  `${label} ${qt("roughness", roughness)} is not below the inner diameter ${qt("diameter", diameter)}: check the unit of each.`;
+const belowDiameter = (key: "roughness" | "agedRoughness", label: string) =>
+  v.forward(
+    v.check<PipeRunShape, (i: v.CheckIssue<PipeRunShape>) => string>(
+      (r) => r[key] < r.diameter,
+      (i) => roughnessNotBelowDiameter(label, i.input[key], i.input.diameter),
+    ),
+    [key],
+  );
+type PipeRunShape = v.InferOutput<typeof PipeRunObject>;
+
+const PipeRunObject = v.object({
   side: v.picklist(["suction", "discharge"]),
   name: v.pipe(v.string(), v.maxLength(80)),
   /** Catalogue table and nominal size; empty when the inner diameter is typed. */
@@ -42,6 +55,8 @@ export const PipeRunSchema = v.object({
   /** Extra ΣK (dimensionless): entrance, exit, equipment given as K. */
   extraK: v.pipe(nonNeg("Extra K"), v.maxValue(1e4)),
 });
+
+export const PipeRunSchema = v.pipe(PipeRunObject, belowDiameter("roughness", "Roughness"), belowDiameter("agedRoughness", "Aged roughness"));
 
 export const SystemInputSchema = v.object({
   fluid: v.variant("kind", [
@@ -147,6 +162,36 @@ export function fluidOf(input: SystemInput): Fluid {
       );
 }
 
+/** The material of a catalogue pipe table (engine PipeTable.material), or null for a typed inner diameter or a table not in the catalogue. */
+export const tableMaterial = (pipeTable: string): string | null => PIPE_TABLES.find((t) => t.id === pipeTable)?.material ?? null;
+
+/**
+ * What the runs as stored say beyond the engine's own warnings, each naming the run and its numbers: a run whose
+ * material is not its pipe table's (its roughness is another material's), and an aged roughness below the new one
+ * (aged pipe is then computed with the new value, `runSpec`; the editor refuses it, stored documents keep it).
+ */
+export function runInputWarnings(input: SystemInput): string[] {
+  const out: string[] = [];
+  input.runs.forEach((r) => {
+    const name = r.name || `A ${r.side} run`;
+    const table = PIPE_TABLES.find((t) => t.id === r.pipeTable);
+    if (table && table.material !== r.material) {
+      const tm = MATERIALS.find((m) => m.id === table.material);
+      const rm = MATERIALS.find((m) => m.id === r.material);
+      const own = tm ? ` (${qt("roughness", tm.roughnessNew)} new, ${qt("roughness", tm.roughnessAged)} aged)` : "";
+      out.push(
+        `${name}: the pipe ${table.name}${table.name.includes(table.standard) ? "" : ` (${table.standard})`} is ${tm?.name ?? table.material}${own}, but the run's material is ${rm?.name ?? r.material}, so its roughness is ${qt("roughness", r.roughness)} new and ${qt("roughness", r.agedRoughness)} aged. Check the run's material.`,
+      );
+    }
+    if (r.agedRoughness < r.roughness) {
+      const [aged, fresh] = qtPair("roughness", r.agedRoughness, r.roughness);
+      out.push(`${name}: the aged roughness ${aged} is below the new ${fresh}; pipe cannot be smoother aged than new, so the aged pipe is computed with the new ${fresh}. Check the aged roughness.`);
+    }
+  });
+  return out;
+}
+
+/** The engine's run: aged roughness never below new (a stored aged value below it is used as the new one, with `runInputWarnings`). */
 function runSpec(r: PipeRunInput): PipeRunSpec {
   return {
     name: r.name,
