@@ -2,6 +2,7 @@ import * as v from "valibot";
 import type { ReactNode } from "react";
 import { useLoaderData } from "react-router";
 import type { Route } from "./+types/field.checks.$id";
+import { StoredProblems } from "~/components/StoredProblems";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
@@ -300,15 +301,7 @@ function UnreadableRecord({ d }: { d: Extract<RecordData, { readable: false }> }
           {d.problemCount} problem{d.problemCount === 1 ? "" : "s"} found when its stored readings and result were read (changed outside the app, or cut off). None of its
           numbers, its verdict against grade {d.check.grade} or its chart are shown: nothing from a damaged record. The record itself is kept as it is.
         </p>
-        <ul className="list-disc pl-5 text-sm">
-          {d.problems.map((p, i) => (
-            <li key={i}>
-              <span className="font-semibold">{p.label}</span>: {p.message}
-              {p.stored ? <span className="text-slate-600"> Stored: {p.stored}.</span> : null}
-            </li>
-          ))}
-          {d.problemCount > d.problems.length ? <li>…and {d.problemCount - d.problems.length} more.</li> : null}
-        </ul>
+        <StoredProblems problems={d.problems} count={d.problemCount} />
         <p className="text-sm">
           {d.mayAmend && d.latest ? "Amend it to record the readings again as a new version (the form starts blank); the photos are carried over." : "The workspace that recorded it can amend it with the readings entered again."}
         </p>

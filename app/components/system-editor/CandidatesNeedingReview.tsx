@@ -7,6 +7,7 @@ import type { UnitChoice } from "~/lib/shared/units";
 import type { CandidateReviewView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
 import { PostButton } from "~/components/PostButton";
+import { StoredProblems } from "~/components/StoredProblems";
 
 export function CandidatesNeedingReview({ items, unitSystem, errors, canWrite }: { items: readonly CandidateReviewView[]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean }) {
   if (items.length === 0) return null;
@@ -29,15 +30,7 @@ export function CandidatesNeedingReview({ items, unitSystem, errors, canWrite }:
           <p className="text-sm">
             <span className="font-semibold">{c.label}</span> <span className="text-xs text-slate-600">({c.library})</span>
           </p>
-          <ul className="list-disc pl-5 text-xs">
-            {c.problems.map((p, i) => (
-              <li key={i}>
-                <span className="font-semibold">{p.label}</span>: {p.message}
-                {p.stored ? <span className="text-slate-600"> Stored: {p.stored}.</span> : null}
-              </li>
-            ))}
-            {c.count > c.problems.length ? <li>…and {c.count - c.problems.length} more.</li> : null}
-          </ul>
+          <StoredProblems problems={c.problems} count={c.count} small />
           {canWrite ? (
             <div className="flex flex-wrap items-end gap-3">
               <div className="w-64">

@@ -2,6 +2,7 @@
 // in plain words with the value stored, and why nothing is computed. The editor below shows the stored values and
 // the same problems beside its fields; saving the fixed inputs brings the system curve and candidates back.
 import type { InputProblem } from "~/lib/projects/stored-input";
+import { StoredProblems } from "~/components/StoredProblems";
 
 /** `problems`: the first MAX_PROBLEMS_LISTED of `count`. */
 export function StoredInputReview({ problems, count, canWrite }: { problems: readonly InputProblem[]; count: number; canWrite: boolean }) {
@@ -14,15 +15,7 @@ export function StoredInputReview({ problems, count, canWrite }: { problems: rea
         {count} problem{count === 1 ? "" : "s"} found when the stored inputs were read (saved under an older version of the checks, or changed outside the editor).
         Nothing is computed from them — no system curve, operating points, candidate results, verdicts or pump search — and no default values stand in for them.
       </p>
-      <ul className="list-disc pl-5 text-sm">
-        {problems.map((p, i) => (
-          <li key={i}>
-            <span className="font-semibold">{p.label}</span>: {p.message}
-            {p.stored ? <span className="text-slate-600"> Stored: {p.stored}.</span> : null}
-          </li>
-        ))}
-        {count > problems.length ? <li>…and {count - problems.length} more.</li> : null}
-      </ul>
+      <StoredProblems problems={problems} count={count} />
       <p className="text-sm">
         {canWrite
           ? "The editor shows the values as stored; a value that is missing or not a number is blank. Correct the fields marked, then save: the checks run again and the results come back."
