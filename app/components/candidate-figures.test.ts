@@ -97,4 +97,16 @@ describe("the candidates table's judged figures read apart from their limits", (
     expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("— — NPSHa -1.18 m at least lift, aged pipe (cavitation-risk)");
     expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("— — NPSHa -3.87 ft at least lift, aged pipe (cavitation-risk)"); // 1.18 m / 0.3048
   });
+
+  it("the range beside 'lowest … at <corner>' holds that lowest: every judged point, not only the band's two edges (made-up figures)", () => {
+    const v = view(ok, 1.1);
+    const c = v.candidates[0] as unknown as { result: { band: object[]; npsh: object } };
+    // The band's two edges at 1.32 and 1.45; the least-lift, aged-pipe corner at 0.958 decides.
+    c.result.band = [{ edge: "least lift, new pipe", npshMarginRatio: 1.45 }, { edge: "most lift, aged pipe", npshMarginRatio: 1.32 }];
+    c.result.npsh = { status: "cavitation-risk", marginRatio: 0.958, at: "least lift, aged pipe", available: 2.395, rule: "rule", requiredMargin: 1.1,
+      judgedAt: [{ at: "design point", marginRatio: 1.38 }, { at: "least lift, new pipe", marginRatio: 1.45 }, { at: "least lift, aged pipe", marginRatio: 0.958 }, { at: "most lift, aged pipe", marginRatio: 1.32 }] };
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("0.96 – 1.45 — lowest 0.96 at least lift, aged pipe (cavitation-risk)");
+    delete (c.result.npsh as { judgedAt?: unknown }).judgedAt; // a selection frozen before the corners were kept: the two edges, as before
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("1.45 – 1.32 — lowest 0.96 at least lift, aged pipe (cavitation-risk)");
+  });
 });

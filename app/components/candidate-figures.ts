@@ -65,3 +65,17 @@ export function npshPointsText(units: UnitChoice, n: NpshJudgement): string {
     .map((p) => `${p.at} ${p.marginRatio != null ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQExact(units, "head", p.available, [0])}` : "—"}`)
     .join("; ");
 }
+
+/**
+ * The margin ratios over every point NPSH was judged at (the design point and the band's corners), lowest – highest:
+ * the range beside "lowest … at <corner>" always holds that lowest value. Selections frozen before the corners were
+ * kept have no `judgedAt`: null, and the table shows the band's two edges as before.
+ * @param n the judgement (`npshOverBand`), ratios dimensionless
+ */
+export function npshJudgedRange(n: NpshJudgement | null | undefined): string | null {
+  const ratios = (n?.judgedAt ?? []).map((p) => p.marginRatio).filter((x): x is number => x != null && Number.isFinite(x));
+  if (ratios.length === 0) return null;
+  const [lo, hi] = [Math.min(...ratios), Math.max(...ratios)];
+  const [a, b] = [npshMarginText(lo, n?.requiredMargin), npshMarginText(hi, n?.requiredMargin)];
+  return a === b ? a : `${a} – ${b}`;
+}

@@ -4,7 +4,7 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "~/lib/shared/units";
-import { bepPositionText, npshLowestText, npshMarginText, npshPairText, npshPointsText } from "./candidate-figures";
+import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText } from "./candidate-figures";
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
@@ -158,7 +158,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
       return (
         <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
-          {range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
+          {npshJudgedRange(n) ?? range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
           {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — {npshLowestText(unitSystem, n)} ({n.status})</span> : null}
         </span>
       );
