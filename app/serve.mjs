@@ -160,6 +160,7 @@ function beforeRouter(req, res, next) {
   const pathname = req.path;
   const api = pathname.startsWith("/api/");
   const unknown = unknownMethodAnswer(build.routes, req.method, pathname);
+  if (unknown?.status === 204) return void res.writeHead(204, { Allow: unknown.allow, "Cache-Control": "no-store" }).end();
   if (unknown?.status === 405) return refuse(res, api, 405, "Method Not Allowed", unknown.detail, { Allow: unknown.allow });
   if (unknown) return refuse(res, api, unknown.status, "Not Found", unknown.detail);
   const request = { method: req.method, get url() { return appUrlOf(req); }, headers: { get: (name) => req.get(name) ?? null } };

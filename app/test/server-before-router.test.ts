@@ -100,6 +100,15 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
     expect(await quietSince(from)).toBe("");
   });
 
+  test("OPTIONS on an API route: 204 with the route's Allow and OPTIONS, no body, the loader not run (it had answered as a GET: 200 with the caller's data)", async () => {
+    for (const [p, wrong] of API) {
+      const own = await send(wrong, p, { authorization: `Bearer ${token}`, origin: base, "content-type": "application/json" }, wrong === "GET" ? undefined : "{}");
+      const r = await send("OPTIONS", p, { authorization: `Bearer ${token}` });
+      expect([p, r.status, r.headers.allow, r.body]).toEqual([p, 204, `${own.headers.allow}, OPTIONS`, ""]);
+    }
+    expect((await send("OPTIONS", "/api/no/such/route")).status).toBe(404);
+  });
+
   test("outside /api/: 405 as text with Allow from the method table (lib/shared/methods.ts)", async () => {
     const from = app!.stderr().length;
     for (const [p, pattern] of PAGES) {

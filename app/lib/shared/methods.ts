@@ -114,10 +114,11 @@ export function patternOf(routes: Record<string, RouteEntry | undefined>, pathna
 export const ROUTER_METHODS: ReadonlySet<string> = new Set(["GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS"]);
 
 /** What app/serve.mjs answers, before React Router, to a method outside ROUTER_METHODS. */
-export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string };
+export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string } | { status: 204; allow: string };
 
 /**
- * The answer to a method React Router does not take (null for one it does), with the route's own Allow:
+ * The answer to a method React Router does not take (null for one it does), and to OPTIONS on an API route (204),
+ * with the route's own Allow:
  * outside /api/ from the table above; on an API route the `allow` its refusing export carries
  * (`refuseMethod` in problem.server.ts: the route's one statement of what it takes); an /api/ path no
  * route serves is a 404, as the API's not-found route answers every method. `routes` is the build's
@@ -125,12 +126,16 @@ export type UnknownMethodAnswer = { status: 405; allow: string; detail: string }
  */
 export function unknownMethodAnswer(routes: Record<string, RouteEntry | undefined>, method: string, pathname: string): UnknownMethodAnswer | null {
   const m = method.toUpperCase();
-  if (ROUTER_METHODS.has(m)) return null;
+  // OPTIONS on an API route: React Router runs the loader for it as for a GET (the answer's body and all); it is
+  // answered here with the route's Allow and nothing else. Pages answer OPTIONS in the root middleware.
+  const apiOptions = m === "OPTIONS" && pathname.startsWith("/api/");
+  if (ROUTER_METHODS.has(m) && !apiOptions) return null;
   const path = pathname === "/_root.data" ? "/" : pathname.replace(/\.data$/, "");
   const matches = matchesOf(routes, path);
   const refuse = (allow: string) => ({ status: 405 as const, allow, detail: `${m} is not taken here: use ${allow.split(", ").join(" or ")}.` });
   if (!path.startsWith("/api/")) return refuse(allowedMethods(matches?.map((x) => x.route.path).filter(Boolean).join("/")).join(", "));
   const leaf = routes[matches?.at(-1)?.route.id ?? ""]?.module as { loader?: { allow?: unknown }; action?: { allow?: unknown } } | undefined;
   const allow = [leaf?.loader?.allow, leaf?.action?.allow].find((a): a is string => typeof a === "string");
-  return allow ? refuse(allow) : { status: 404, detail: "No API route at this path." };
+  if (!allow) return { status: 404, detail: "No API route at this path." };
+  return apiOptions ? { status: 204, allow: `${allow}, OPTIONS` } : refuse(allow);
 }
