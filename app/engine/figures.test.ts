@@ -165,3 +165,22 @@ describe("field check", () => {
     expect(withinGrade(etaCurve, q0, h0 * 1.02, TOLERANCE_GRADES[0])).toBe(true);
   });
 });
+
+describe("NPSHa at or below zero with no NPSHr on the curve", () => {
+  // NPSHa = (p_s − p_v)/(ρg) + z_s − h_loss (common practice): 101 325 Pa at the surface, 20 °C water, a suction lift
+  // around 10.3 m puts it at zero.
+  const noNpshr = createPumpCurve({ points: samplePoints({ npshr: false }) });
+  const at = (z: number) => operatingFigures({ curve: noNpshr, flow: 40 * M3H, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: z, suctionLoss: 0 } });
+  it("says NPSHa is not above zero, never 'below NPSHr' (there is none); flips at NPSHa = 0 (bisection on the suction lift)", () => {
+    let lo = -20, hi = 0; // NPSHa(lo) < 0 < NPSHa(hi)
+    for (let i = 0; i < 200; i++) { const mid = (lo + hi) / 2; if (at(mid).npsh!.available > 0) hi = mid; else lo = mid; }
+    const below = at(lo), above = at(hi);
+    expect(below.npsh!.available).toBeLessThanOrEqual(0);
+    expect(below.npsh!.status).toBe("cavitation-risk");
+    const said = below.warnings.find((w) => w.code === "npsh-cavitation")!.message;
+    expect(said).toMatch(/is not above zero: cavitation risk whatever the pump \(the curve has no NPSHr at this flow\)/);
+    expect(said).not.toMatch(/below NPSHr/);
+    expect(above.npsh!.status).toBe("unknown");
+    expect(above.warnings.map((w) => w.code)).toContain("npsh-unknown");
+  });
+});

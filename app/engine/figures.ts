@@ -203,7 +203,11 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
     if (available <= 0) status = "cavitation-risk";
     // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
-    if (status === "cavitation-risk") warnings.push({ code: "npsh-cavitation", message: `NPSHa ${qtExact("head", available, [required])} is below NPSHr${required !== null ? ` ${qtLimit("head", required, [available])}` : ""}: cavitation risk` });
+    if (status === "cavitation-risk")
+      warnings.push({ code: "npsh-cavitation", message: required !== null
+        ? `NPSHa ${qtExact("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
+        // No NPSHr here: NPSHa at or below zero decides alone (the liquid would boil at the inlet whatever the pump).
+        : `NPSHa ${qtExact("head", available, [0])} is not above zero: cavitation risk whatever the pump (the curve has no NPSHr at this flow)` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${fmtNumExact(marginRatio, [1, requiredMargin], 2)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
     npsh = { available, required, marginRatio, requiredMargin, status };
