@@ -22,7 +22,10 @@ import {
 import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import type { CheckResult, Pt } from "./result";
-import { fmtPctExact, qt } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
+
+/** Measured speed / the curve's speed within which a check is judged (ISO 9906, about 50–120 %, from memory). */
+export const SPEED_RANGE = [0.5, 1.2] as const;
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 
@@ -152,8 +155,18 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   });
   warnings.push(...engine.warnings.map((w) => w.message));
   const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
-  const { verdict, within } = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
-  if (within)
+  const judged = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
+  const { within } = judged;
+  let verdict = judged.verdict;
+  // The curve is translated to the measured speed by the affinity laws, which a test may use only near the
+  // curve's speed (ISO 9906: about 50–120 %, from memory; the engine's large-speed-change warning uses the same
+  // bounds). Farther off, no tolerance verdict is given, with the reason.
+  const speedRatio = rescaled && measured !== null && rated !== null ? measured / rated : null;
+  if (speedRatio !== null && (speedRatio < SPEED_RANGE[0] || speedRatio > SPEED_RANGE[1]) && verdict !== "unknown") {
+    verdict = "unknown";
+    warnings.push(`No tolerance verdict: the measured speed (${Math.round(measured!)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${Math.round(rated!)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
+  }
+  if (within && verdict === "marginal")
     warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty (flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross).`);
 
   const q = engine.flow;
@@ -170,6 +183,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
           curve: q !== null ? efficiencyAt(curve, q) : null,
         };
   if (power && power.overall !== null && power.overall > 1) warnings.push("The efficiency comes out above 100 %: a reading or its unit is wrong.");
+  // The pump's own (hydraulic / shaft, the motor's efficiency taken off the input) can pass 100 % while the overall does not.
+  else if (power && power.pump !== null && power.pump > 1) warnings.push(`The pump's efficiency comes out at ${fmtPctExact(power.pump, [1])}, above 100 % (hydraulic power over input × the motor's efficiency): a reading, its unit or the motor efficiency entered is wrong.`);
 
   const deviation = {
     curveFlow: engine.flowDeviation,

@@ -25,7 +25,7 @@ export const VERDICT_TEXT: Record<Verdict, string> = {
   pass: "within tolerance",
   marginal: "at the tolerance limit (within the reading uncertainty)",
   fail: "outside tolerance",
-  unknown: "no tolerance verdict (no flow meter)",
+  unknown: "no tolerance verdict", // why is said beside it: no flow meter, or a speed too far from the curve's
 };
 
 /** One gauge as read on site, SI. */

@@ -341,7 +341,9 @@ async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fie
       to.name ? `Hello ${oneLine(to.name)},` : "Hello,",
       "",
       `${oneLine(checkedBy)} recorded a field check on the selection “${selection}” in the project “${project}”.`,
-      "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve.",
+      r.engine.flowSource !== "measured"
+        ? "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve."
+        : "No tolerance verdict: the measured speed is too far from the curve's to judge against it (the check says why).",
       detail,
       "",
       `Open the field check: ${link}`,
