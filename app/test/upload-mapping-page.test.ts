@@ -53,7 +53,7 @@ describe("mapping page: a column of electrical input power (P1)", () => {
     expect(html).toMatch(/data-testid="input-power">electrical input power \(P1\), not the shaft power \(P2\) the importer reads: (?:<!-- -->)?left out/); // source: importer rule (the row names the reason)
   });
   it("the problems list warns that the file then has no power figures", () => {
-    expect(html).toContain("“P1 kW” is left unmapped: its header names the motor&#x27;s electrical input power (P1)"); // source: inputPowerMessage
+    expect(html).toContain("“P1 kW” is left unmapped: its header names the motor&#x27;s electrical input power (P1)"); // source: notShaftPowerMessage (INPUT_POWER)
     expect(html).toContain("no shaft power (P2) or pump efficiency column"); // source: same
     expect(html).toContain("▲ "); // source: a warning, not an error (the page marks warnings ▲)
   });
@@ -66,6 +66,6 @@ describe("mapping page: a column of hydraulic power", () => {
   it("“Hydraulic power (kW)” means “— ignore —”, and the row says why", () => {
     expect(selected(selectOf(html, "Meaning of Hydraulic power (kW)"))).toBe("ignore"); // source: common practice (hydraulic power is not P2)
     expect(html).toMatch(/data-testid="hydraulic-power">hydraulic power \(ρ·g·Q·H\), not the shaft power \(P2\) the importer reads: left out/); // source: importer rule (the row names the reason)
-    expect(html).toContain("worked out from the pump efficiency column “Eff %” instead"); // source: hydraulicPowerMessage
+    expect(html).toContain("worked out from the pump efficiency column “Eff %” instead"); // source: notShaftPowerMessage (HYDRAULIC_POWER)
   });
 });

@@ -4,11 +4,11 @@
  * output in ISO 9906's symbols, from memory), not the pump's shaft power (P2). The importer's power field is shaft
  * power: P2 = P_hyd / η (η the pump efficiency), so P_hyd read as P2 understates it by the pump efficiency (at
  * η = 70 % by 30 %), an efficiency worked out from it comes out at 100 % and the motor is sized too small. Such a
- * column is left unmapped ("ignore") and checkMapping says why (hydraulicPowerMessage). It holds nothing that the flow
+ * column is left unmapped ("ignore") and checkMapping says why (notShaftPowerMessage with HYDRAULIC_POWER). It holds nothing that the flow
  * and head columns do not (P_hyd = ρ·g·Q·H), so leaving it out loses nothing; it is never converted.
  * Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
  */
-import { namesShaftOrElectrical, shaftPowerSource } from "./input-power";
+import { namesShaftOrElectrical, type NotShaftPower } from "./input-power";
 
 /**
  * Words that name the hydraulic power: hydraulic (hydr., hyd, Phyd, P_hyd, hydraulische, hydraulique), output
@@ -29,23 +29,12 @@ export function namesHydraulicPower(norm: string): boolean {
   return HYDRAULIC.test(norm) && !namesShaftOrElectrical(norm);
 }
 
-const WHY =
-  "Dutymark's power is the pump's shaft power (P2), and P2 = P_hyd / η (η the pump efficiency): hydraulic power read as P2 understates it " +
-  "by the pump efficiency (at η = 70 % by 30 %), so efficiencies worked out from it come out at 100 % and the motor is sized too small";
-
-/**
- * The warning for a column whose header names the hydraulic power.
- * `mapped`: the column is mapped to power all the same (a user's or a saved mapping); otherwise it was left out.
- * `efficiency`: the header of the mapped pump efficiency column, or null.
- */
-export function hydraulicPowerMessage(header: string, mapped: boolean, efficiency: string | null): string {
-  if (mapped)
-    return (
-      `“${header}” is mapped to shaft power, but its header names the hydraulic power (the power given to the liquid, P_hyd = ρ·g·Q·H). ${WHY}. ` +
-      `If its values are the hydraulic power, set the column to “— ignore —” (API: field "ignore"); keep it only if they are the pump's shaft power.`
-    );
-  return (
-    `“${header}” is left unmapped: its header names the hydraulic power (the power given to the liquid, P_hyd = ρ·g·Q·H), which holds nothing the flow and head do not. ` +
-    `${WHY}. ${shaftPowerSource(efficiency)} If its values are the pump's shaft power after all, choose “Shaft power” for the column.`
-  );
-}
+/** The hydraulic power, for notShaftPowerMessage (input-power.ts). */
+export const HYDRAULIC_POWER: NotShaftPower = {
+  names: "the hydraulic power (the power given to the liquid, P_hyd = ρ·g·Q·H)",
+  leftOut: ", which holds nothing the flow and head do not",
+  values: "the hydraulic power",
+  why:
+    "Dutymark's power is the pump's shaft power (P2), and P2 = P_hyd / η (η the pump efficiency): hydraulic power read as P2 understates it " +
+    "by the pump efficiency (at η = 70 % by 30 %), so efficiencies worked out from it come out at 100 % and the motor is sized too small",
+};

@@ -3,7 +3,7 @@
  * The importer's power field is shaft power: P2 = P1 × motor efficiency (× drive efficiency), so P1 read
  * as P2 overstates it (a small wet-rotor circulator's P1 can be about twice its P2, common practice), the
  * efficiency derived from it comes out too low and the motor is sized too large. Such a column is left
- * unmapped ("ignore") and checkMapping says why (inputPowerMessage).
+ * unmapped ("ignore") and checkMapping says why (notShaftPowerMessage with INPUT_POWER).
  * Pump data sheets write P1 for the electrical input and P2 for the shaft power (common practice);
  * "absorbed power" / "power absorbed" alone is the pump's shaft power there (common practice), unless the
  * header also says electrical. Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
@@ -41,26 +41,44 @@ export function namesInputPower(norm: string): boolean {
   return INPUT.test(norm);
 }
 
-const WHY =
-  "Dutymark's power is the pump's shaft power (P2), and P2 = P1 × motor efficiency (× drive efficiency): P1 read as P2 overstates it " +
-  "(a small wet-rotor circulator's P1 can be about twice its P2), so efficiencies worked out from it come out too low and the motor is sized too large";
+/** A power column that is not the pump's shaft power: what its header names, and why reading it as P2 misleads. */
+export type NotShaftPower = {
+  /** What the header names, e.g. "the motor's electrical input power (P1)". */
+  names: string;
+  /** Said after `names` when the column is left out (or ""). */
+  leftOut: string;
+  /** The values as the user would recognise them, e.g. "P1". */
+  values: string;
+  /** Why P2 taken from it is wrong, with the numbers. */
+  why: string;
+};
 
 /**
- * The warning for a column whose header names the electrical input power.
+ * The warning for a column whose header names a power that is not shaft power (`kind`).
  * `mapped`: the column is mapped to power all the same (a user's or a saved mapping); otherwise it was left out.
  * `efficiency`: the header of the mapped pump efficiency column, or null.
  */
-export function inputPowerMessage(header: string, mapped: boolean, efficiency: string | null): string {
+export function notShaftPowerMessage(kind: NotShaftPower, header: string, mapped: boolean, efficiency: string | null): string {
   if (mapped)
     return (
-      `“${header}” is mapped to shaft power, but its header names the motor's electrical input power (P1). ${WHY}. ` +
-      `If its values are P1, set the column to “— ignore —” (API: field "ignore"); keep it only if they are the pump's shaft power.`
+      `“${header}” is mapped to shaft power, but its header names ${kind.names}. ${kind.why}. ` +
+      `If its values are ${kind.values}, set the column to “— ignore —” (API: field "ignore"); keep it only if they are the pump's shaft power.`
     );
   return (
-    `“${header}” is left unmapped: its header names the motor's electrical input power (P1). ${WHY}. ${shaftPowerSource(efficiency)} ` +
+    `“${header}” is left unmapped: its header names ${kind.names}${kind.leftOut}. ${kind.why}. ${shaftPowerSource(efficiency)} ` +
     `If its values are the pump's shaft power after all, choose “Shaft power” for the column.`
   );
 }
+
+/** The motor's electrical input power (P1). */
+export const INPUT_POWER: NotShaftPower = {
+  names: "the motor's electrical input power (P1)",
+  leftOut: "",
+  values: "P1",
+  why:
+    "Dutymark's power is the pump's shaft power (P2), and P2 = P1 × motor efficiency (× drive efficiency): P1 read as P2 overstates it " +
+    "(a small wet-rotor circulator's P1 can be about twice its P2), so efficiencies worked out from it come out too low and the motor is sized too large",
+};
 
 /**
  * Where a file's shaft power comes from once a power column that is not shaft power is left out.

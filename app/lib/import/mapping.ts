@@ -7,8 +7,8 @@ import * as v from "valibot";
 import { parseNumber } from "./numbers";
 import type { SourceRow } from "./parse";
 import type { Problem } from "./types";
-import { inputPowerMessage } from "./input-power";
-import { hydraulicPowerMessage } from "./hydraulic-power";
+import { INPUT_POWER, notShaftPowerMessage } from "./input-power";
+import { HYDRAULIC_POWER } from "./hydraulic-power";
 import {
   DIAMETER_UNITS,
   EFFICIENCY_UNITS,
@@ -254,7 +254,7 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
   headers.forEach((h, i) => {
     const field = mapping.columns.find((c) => c.index === i)?.field ?? "ignore"; // a column a mapping leaves out is unmapped
     const kind = field === "power" || (field === "ignore" && !hasPower) ? headerPowerKind(h) : null;
-    if (kind) p((kind === "input" ? inputPowerMessage : hydraulicPowerMessage)(h, field === "power", efficiency), h, "warning");
+    if (kind) p(notShaftPowerMessage(kind === "input" ? INPUT_POWER : HYDRAULIC_POWER, h, field === "power", efficiency), h, "warning");
   });
   const byKey = new Map<string, MappedColumn[]>();
   for (const c of used) {

@@ -227,7 +227,7 @@ export function detectField(norm: string): Field {
 /**
  * The power `header` names when it reads as power but is not the pump's shaft power: "input" (P1, "Input power",
  * "Motor kW", "kW el"...) or "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw"...); null otherwise.
- * guessHeader leaves such a column unmapped and checkMapping says why (inputPowerMessage, hydraulicPowerMessage).
+ * guessHeader leaves such a column unmapped and checkMapping says why (notShaftPowerMessage).
  */
 export function headerPowerKind(header: string): PowerKind | null {
   const norm = normaliseHeader(header);
