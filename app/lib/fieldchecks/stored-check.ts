@@ -7,7 +7,7 @@
 // are allowed and kept: a document that passes is handed on as stored. Pure (no server module): the readers are in
 // records.server.ts.
 import * as v from "valibot";
-import { problemPlaces, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
+import { problemsSummary, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
 import type { CheckFields, Readings } from "./form";
 import type { CheckResult } from "./result";
 
@@ -128,6 +128,5 @@ export function readStoredCheck(row: { readingsJson: string; resultJson: string 
  * and where ("2 problems: readings, suction gauge, pressure; result, delivered point, head").
  */
 export function unreadableCheckText(c: { problems: readonly DocProblem[]; problemCount: number }): string {
-  const n = c.problemCount;
-  return `Its stored record cannot be read (${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(c.problems)}), so its numbers and verdict are not shown.`;
+  return `Its stored record cannot be read (${problemsSummary(c.problems, c.problemCount)}), so its numbers and verdict are not shown.`;
 }

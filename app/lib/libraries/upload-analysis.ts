@@ -7,7 +7,7 @@ import {
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
 import { firstCurveSets } from "../import/packed";
-import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
+import { MAX_PROBLEMS_LISTED, problemLine, problemsSummary, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
 
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;
@@ -92,10 +92,9 @@ export function analyseStored(source: string | Uint8Array, lib: { mappingJson: s
 /** What the mapping page says of a saved mapping that cannot be read (null when there is none such). */
 export function savedMappingNotice(problems: readonly DocProblem[]) {
   if (!problems.length) return null;
-  const n = problems.length;
   return {
     text:
-      `The column mapping saved with this library from its last import cannot be read (${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), so it is not used: ` +
+      `The column mapping saved with this library from its last import cannot be read (${problemsSummary(problems)}), so it is not used: ` +
       "the mapping below is proposed from this file's headers, as for a first upload. Check it before importing; the import saves the mapping it uses in its place.",
     lines: problems.slice(0, MAX_PROBLEMS_LISTED).map(problemLine),
   };

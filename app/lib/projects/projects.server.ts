@@ -24,7 +24,7 @@ import { candidateEnergy, type CandidateEnergy } from "./energy";
 import { curvesOfRevisions, candidateCurveOpen, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { candidateLabel } from "./labels";
 import { editorInput, readStoredInput, type InputProblem } from "./stored-input";
-import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, type DocProblem } from "./stored-doc";
+import { MAX_PROBLEMS_LISTED, problemErrors, problemPlaces, problemsSummary, type DocProblem } from "./stored-doc";
 import { adjustFormValues, readStoredAdjustment } from "./stored-adjustment";
 
 export const MAX_CANDIDATES = 6;
@@ -128,11 +128,10 @@ async function systemRecord(viewer: Viewer, systemId: number) {
  * place): `detail` names where it is wrong, `errors` what (quantity tokens, rendered by the API in the caller's units).
  */
 export function storedInputRefusal(name: string, problems: readonly InputProblem[]) {
-  const n = problems.length;
   const detail =
-    `The stored inputs of the system "${name}" do not pass the system checks (${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), ` +
+    `The stored inputs of the system "${name}" do not pass the system checks (${problemsSummary(problems)}), ` +
     "so nothing is computed from them: no system curve, operating point, search or verdict. Open the system page to see what is wrong, fix it and save.";
-  return data({ detail, errors: problems.slice(0, MAX_PROBLEMS_LISTED).map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
+  return data({ detail, errors: problemErrors(problems) }, { status: 409 });
 }
 
 export async function listSystems(viewer: Viewer, projectId: number) {
@@ -266,9 +265,9 @@ export async function listCandidates(viewer: Viewer, systemId: number): Promise<
 /** The refusal of anything computed from a candidate whose stored adjustment does not pass the schema (409, never the default adjustment). */
 export function storedAdjustmentRefusal(c: Pick<CandidateNeedingReview, "label" | "count" | "problems">) {
   const detail =
-    `The stored adjustment of the candidate "${c.label}" does not pass the checks (${c.count} problem${c.count === 1 ? "" : "s"}: ${problemPlaces(c.problems)}), ` +
+    `The stored adjustment of the candidate "${c.label}" does not pass the checks (${problemsSummary(c.problems, c.count)}), ` +
     "so it is not evaluated, compared or selected. Open the system page to see what is wrong: apply its adjustment again, or remove it.";
-  return data({ detail, errors: c.problems.map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
+  return data({ detail, errors: problemErrors(c.problems) }, { status: 409 });
 }
 
 export async function addCandidate(viewer: Viewer, systemId: number, curveSetId: number, adjustment: Adjustment = DEFAULT_ADJUSTMENT) {

@@ -6,7 +6,7 @@ import { db } from "@db/client.server";
 import { curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
 import type { Viewer } from "../libraries";
 import { readStoredSelection, type FrozenSelection } from "./stored-selection";
-import { MAX_PROBLEMS_LISTED, problemLine, problemPlaces, type DocProblem } from "./stored-doc";
+import { problemErrors, problemsSummary, type DocProblem } from "./stored-doc";
 import { ownCandidate, ownRow, storedAdjustmentRefusal, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
 
@@ -73,12 +73,11 @@ export type { FrozenSelection } from "./stored-selection";
  * where it is wrong, `errors` what. The report page shows `detail`; the exports and the field pages' queue answer problem+json.
  */
 export function storedSelectionRefusal(s: { id: number; title: string }, problems: readonly DocProblem[]) {
-  const n = problems.length;
   const detail =
     `The stored selection "${s.title}" (report DM-${String(s.id).padStart(5, "0")}) cannot be read: its frozen document does not pass the checks ` +
-    `(${n} problem${n === 1 ? "" : "s"}: ${problemPlaces(problems)}), so nothing of it is shown, exported or checked against — no numbers from a damaged record. ` +
+    `(${problemsSummary(problems)}), so nothing of it is shown, exported or checked against — no numbers from a damaged record. ` +
     "The record itself is kept as it is; select the pump again from its system to make a new report.";
-  return data({ detail, errors: problems.slice(0, MAX_PROBLEMS_LISTED).map((p) => ({ field: p.path, message: problemLine(p) })) }, { status: 409 });
+  return data({ detail, errors: problemErrors(problems) }, { status: 409 });
 }
 
 /** A selection row's frozen document as stored, or the refusal (409) when it does not pass `FrozenSelectionSchema`. */

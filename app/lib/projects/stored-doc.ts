@@ -108,3 +108,11 @@ export function problemPlaces(problems: readonly DocProblem[], max = 6): string 
 
 /** One line per problem (for the API's `errors` and tests): "pipe run 2, inner diameter: Inner diameter must be greater than zero. (stored: ⟦diameter|-0.1⟧)". */
 export const problemLine = (p: DocProblem) => `${p.label}: ${p.message}${p.stored ? ` (stored: ${p.stored})` : ""}`;
+
+/** How many problems and where, for a sentence: "2 problems: temperature; pipe run 2, inner diameter" (`count` when only some are kept). */
+export function problemsSummary(problems: readonly DocProblem[], count = problems.length): string {
+  return `${count} problem${count === 1 ? "" : "s"}: ${problemPlaces(problems)}`;
+}
+
+/** The problems as an API answer's `errors` (the first MAX_PROBLEMS_LISTED): field (dotted path) and message with the value stored. */
+export const problemErrors = (problems: readonly DocProblem[]) => problems.slice(0, MAX_PROBLEMS_LISTED).map((p) => ({ field: p.path, message: problemLine(p) }));
