@@ -60,9 +60,7 @@ function scalePoints(points: readonly PumpPoint[], q: number, h: number, p: numb
 export function scaleBySpeed(curve: PumpCurve | PumpCurveInput, ratio: number): ScaledCurve {
   const c = ensurePumpCurve(curve);
   const r = requirePositive("ratio", ratio);
-  const warnings: EngineWarning[] = [];
-  if (r < 0.5 || r > 1.2) warnings.push({ code: "large-speed-change", parameter: "ratio",
-    message: `speed ratio ${r.toFixed(3)}: affinity laws are less reliable far from the tested speed` });
+  const warnings = scaleWarningsSpeed(r);
   const input = inputOf(c);
   const scaled = createPumpCurve({ ...input, points: scalePoints(c.points, r, r * r, r * r * r, r * r),
     speed: c.speed !== null ? c.speed * r : undefined, riseTolerance: 1 });
@@ -210,8 +208,15 @@ export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: nu
     efficiency: e, warnings, message: `speed ratio ${r.ratio.toFixed(4)}` });
 }
 
+/**
+ * Speed ratios N₂/N₁ within which the affinity laws translate a curve closely enough to judge by it (dimensionless):
+ * about 50–120 % (common practice; ISO 9906 lets a test be translated from within this range, from memory). Outside,
+ * `large-speed-change`; a field check gives no tolerance verdict (lib/fieldchecks/evaluate.ts).
+ */
+export const AFFINITY_SPEED_RANGE = [0.5, 1.2] as const;
+
 function scaleWarningsSpeed(r: number): EngineWarning[] {
-  return r < 0.5 || r > 1.2 ? [{ code: "large-speed-change", parameter: "ratio",
+  return r < AFFINITY_SPEED_RANGE[0] || r > AFFINITY_SPEED_RANGE[1] ? [{ code: "large-speed-change", parameter: "ratio",
     message: `speed ratio ${r.toFixed(3)}: affinity laws are less reliable far from the tested speed` }] : [];
 }
 

@@ -2,6 +2,7 @@
 // deviations, a verdict against a labelled tolerance grade and plain hints. No database, no Node
 // API: the server runs it when a check is recorded, the phone runs it offline (same numbers).
 import {
+  AFFINITY_SPEED_RANGE,
   createPumpCurve,
   EngineInputError,
   efficiencyAt,
@@ -24,8 +25,8 @@ import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from
 import type { CheckResult, Pt } from "./result";
 import { fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
-/** Measured speed / the curve's speed within which a check is judged (ISO 9906, about 50–120 %, from memory). */
-export const SPEED_RANGE = [0.5, 1.2] as const;
+/** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
+export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
 
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 
