@@ -14,14 +14,14 @@ import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, selections } from "@db/schema";
 import type { Viewer } from "~/lib/libraries";
-import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
+import { addCandidate, createSystem, searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
-import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoProjectFixture } from "~/lib/projects/test-kit";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
-import { call, makeMember, type TestMember } from "./harness";
+import { call, type TestMember } from "./harness";
 
 afterAll(() => closeDb());
 
@@ -30,12 +30,7 @@ let v: Viewer;
 let projectId = 0;
 const booster = boosterInput;
 
-beforeAll(async () => {
-  m = await makeMember("admin");
-  v = await viewerOfUser(m.userId);
-  await demoLibrary(v, "Stored adjustment pumps");
-  projectId = await createProject(v, { name: "Stored adjustments", site: "", description: "" });
-});
+beforeAll(async () => void ({ m, v, projectId } = await demoProjectFixture("Stored adjustment pumps", "Stored adjustments")));
 
 type Corruption = { name: string; corrupt: (adj: Record<string, unknown>) => string; label: string; message: RegExp; stored: string | null };
 /** Each corruption, the place it must be named by (stored-adjustment.ts) and what must be said (the schema's messages, SI). */

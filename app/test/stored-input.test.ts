@@ -14,10 +14,10 @@ import { and, eq, ne } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, selections, systems } from "@db/schema";
 import type { Viewer } from "~/lib/libraries";
-import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
+import { addCandidate, createSystem, searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, type SystemInput } from "~/lib/projects/hydraulics";
 import { systemFormValues } from "~/lib/projects/system-form";
-import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoProjectFixture } from "~/lib/projects/test-kit";
 import { SI_UNITS } from "~/lib/shared/units";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
@@ -25,7 +25,7 @@ import * as searchPage from "~/routes/systems.$id.search";
 import * as projectPage from "~/routes/projects.$id";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
-import { call, makeMember, type TestMember } from "./harness";
+import { call, type TestMember } from "./harness";
 
 afterAll(() => closeDb());
 
@@ -34,12 +34,7 @@ let v: Viewer;
 let projectId = 0;
 const booster = boosterInput;
 
-beforeAll(async () => {
-  m = await makeMember("admin");
-  v = await viewerOfUser(m.userId);
-  await demoLibrary(v, "Stored input pumps");
-  projectId = await createProject(v, { name: "Stored inputs", site: "", description: "" });
-});
+beforeAll(async () => void ({ m, v, projectId } = await demoProjectFixture("Stored input pumps", "Stored inputs")));
 
 type Corruption = { name: string; corrupt: (doc: Record<string, unknown>) => string; label: string; message: RegExp; stored: string | null };
 /** Each corruption, the place it must be named by (stored-input.ts `pathLabel`) and what must be said (the schema's messages, SI). */

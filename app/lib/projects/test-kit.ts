@@ -40,6 +40,15 @@ export async function demoLibrary(v: Viewer, name: string, file = "tallowmere.cs
   return libraryId;
 }
 
+/** An admin with a workspace library of the Tallowmere demo curves named `library` and an empty project named `project`. */
+export async function demoProjectFixture(library: string, project: string) {
+  const m = await makeMember("admin");
+  const v = await viewerOfUser(m.userId);
+  await demoLibrary(v, library);
+  const projectId = await createProject(v, { name: project, site: "", description: "" });
+  return { m, v, projectId };
+}
+
 /**
  * An admin on the paid plan, a workspace library holding the first `fraction` of the demo file's rows
  * (one revision), and a system "Main" (12 m static, 150 mm runs, duty 108 m³/h at 28 m).
