@@ -26,7 +26,8 @@ const SEARCH_FIELDS: [string, string][] = [
   ["curve", "the published curve: speed (rpm) and impellerDiameter (m)"],
   ["adjustment", "kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio); speed (rpm) and diameter (m) after the adjustment"],
   ["verdict", "{ status, rule, reasons } with a status below, or null when no verdict was computed"],
-  ["figures", "headAtDuty (m), efficiency (0–1), shaftPower (W), npshRequired (m), npshMargin (NPSHa/NPSHr), bepRatio (duty flow / BEP flow), inPor, score"],
+  ["npsh", "NPSH as the workbench judges it, at the design point and each corner of the system's band: { status (ok, low-margin, cavitation-risk, unknown), marginRatio (the lowest NPSHa/NPSHr), at (where), available (NPSHa there, m), rule }, or null with no verdict; a pump that meets the duty but has a cavitation risk on the band ranks after those that do not"],
+  ["figures", "headAtDuty (m), efficiency (0–1), shaftPower (W), npshRequired (m), npshMargin (NPSHa/NPSHr at the duty), bepRatio (duty flow / BEP flow), inPor, score"],
   ["reason, warnings", "why the result ranks where it does, in words; cautions (e.g. trim is approximate)"],
 ];
 
@@ -54,7 +55,8 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
         <code>{"{ duty, message, stats, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
         The search judges the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged} (fewer when
         rows outside the catalogue are left out); a page is a slice of one ranking, so <code>rank</code> runs on across pages.
-        Without <code>page</code> the answer is the first {pageRows} results, as before paging. Without a duty,{" "}
+        Without <code>page</code> the answer is the first {pageRows} results, as before paging. <code>stats</code> counts the curves searched, <code>rejectedByEnvelope</code> (out of their range),{" "}
+        <code>rejectedByNpsh</code> (NPSHr at the duty above the NPSHa there) and <code>matched</code>. Without a duty,{" "}
         <code>results</code> is empty and <code>message</code> says why; an unknown <code>method</code> is a 400.
       </p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SEARCH_FIELDS} />

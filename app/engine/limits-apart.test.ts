@@ -166,7 +166,7 @@ describe("the search's reasons: NPSH margin and BEP position beside 'below' and 
   it("sweep: margins just below 1.1 and 1.3, BEP ratios just outside 70 % and 120 % (POR, ANSI/HI 9.6.3 from memory)", () => {
     for (const req of [1.1, 1.3]) for (const off of [-1e-3, -1e-4, -1e-5]) for (const bep of [0.7 * (1 + off), 1.2 * (1 - off)]) {
       const [c] = explainRanks([row(req * (1 + off), bep)], 1, req);
-      const m = new RegExp(`NPSH margin ${NUM} \\(below ${NUM}\\)`).exec(c.reason);
+      const m = new RegExp(`NPSH margin at duty ${NUM} \\(below ${NUM}\\)`).exec(c.reason);
       expect(m, c.reason).toBeTruthy();
       expectApart({ shown: m![1], true: req * (1 + off) }, { shown: m![2], true: req }, c.reason);
       const b = new RegExp(`${NUM} % of BEP flow \\(outside POR`).exec(c.reason);

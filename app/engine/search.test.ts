@@ -69,6 +69,16 @@ describe("searchDuty", () => {
     for (const c of r.candidates) expect(c.npshMargin!).toBeGreaterThanOrEqual(1);
     const none = searchDuty(index, duty, { npshAvailable: 0.5 });
     expect(none.candidates.length).toBe(0);
+    expect(none.stats.rejectedByNpsh).toBe(2); // both reach the duty; each left out for NPSH, and counted
+    expect(res.stats.rejectedByNpsh).toBe(0); // no NPSHa given: nothing judged
+  });
+  it("the NPSH count flips where NPSHa crosses a pump's NPSHr at the duty", () => {
+    const r = searchDuty(index, duty);
+    const npshr = Math.max(...r.candidates.map((c) => c.npshr!)); // the hungrier of the two (makeCurve, made-up data)
+    expect(searchDuty(index, duty, { npshAvailable: npshr * 1.001 }).stats.rejectedByNpsh).toBe(0);
+    const below = searchDuty(index, duty, { npshAvailable: npshr * 0.999 });
+    expect(below.stats.rejectedByNpsh).toBe(1);
+    expect(below.stats.matched).toBe(1);
   });
   it("bad duty is a typed error", () => {
     expect(() => searchDuty(index, { flow: 0, head: 30 })).toThrow(EngineInputError);

@@ -79,8 +79,8 @@ export interface Candidate {
 /** Search outcome. */
 export interface SearchResult {
   candidates: Candidate[];
-  /** Counts: sets searched, rejected by envelope, evaluated, that met the duty. */
-  stats: { searched: number; rejectedByEnvelope: number; evaluated: number; matched: number };
+  /** Counts: sets searched, rejected by envelope, evaluated, left out for NPSHa below NPSHr at the duty, that met the duty. */
+  stats: { searched: number; rejectedByEnvelope: number; evaluated: number; rejectedByNpsh: number; matched: number };
 }
 
 /**
@@ -126,7 +126,7 @@ export function searchDuty(
   const fE: number[] = [], fMethod: number[] = [], fRatio: number[] = [], fHead: number[] = [];
   const fEff: (number | null)[] = [], fBep: (number | null)[] = [], fNpshr: (number | null)[] = [], fMargin: (number | null)[] = [], fPower: (number | null)[] = [];
   const METHODS = ["direct", "trim", "speed"] as const;
-  let rejectedByEnvelope = 0, evaluated = 0;
+  let rejectedByEnvelope = 0, evaluated = 0, rejectedByNpsh = 0;
 
   const fMin = idx.flowMin, fMax = idx.flowMax, hMax = idx.headMax;
   for (let e = 0; e < idx.count; e++) {
@@ -163,7 +163,7 @@ export function searchDuty(
     const n0 = evalPacked(idx.npshr, e, qOrig);
     if (n0 !== null) npshr = method === 2 ? n0 * ratio * ratio : n0;
     const npshMargin = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
-    if (npshMargin !== null && npshMargin < 1) continue; // cavitation: cannot meet the duty
+    if (npshMargin !== null && npshMargin < 1) { rejectedByNpsh++; continue; } // cavitation: cannot meet the duty
     fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty);
     fEff.push(eff); fBep.push(bepRatio); fNpshr.push(npshr); fMargin.push(npshMargin);
     fPower.push(eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null);
@@ -200,7 +200,7 @@ export function searchDuty(
     };
   });
   explainRanks(top, matched, reqMargin);
-  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, matched } });
+  return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, rejectedByNpsh, matched } });
 }
 
 /**

@@ -15,7 +15,7 @@ function describe(c: Candidate, reqMargin: number): string {
   parts.push(c.efficiency !== null ? `${fmtPct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
   // Beside "outside POR" or "below" the figure never reads as the limit it was judged against.
   if (c.bepRatio !== null) parts.push(c.inPor ? `${Math.round(c.bepRatio * 100)} % of BEP flow (inside POR)` : `${fmtPctExact(c.bepRatio, [0.7, 1.2], 0)} of BEP flow (outside POR 70–120 %)`);
-  if (c.npshMargin !== null) parts.push(`NPSH margin ${fmtNumExact(c.npshMargin, [1, reqMargin], 2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
+  if (c.npshMargin !== null) parts.push(`NPSH margin at duty ${fmtNumExact(c.npshMargin, [1, reqMargin], 2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
   if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
   return parts.join("; ");
 }
@@ -36,7 +36,7 @@ function compareWithAbove(a: Candidate, b: Candidate): string {
     if (Math.abs(d) >= 5) diffs.push(`${qt("power", Math.abs(d))} ${d > 0 ? "more" : "less"} shaft power`);
   }
   if (a.npshMargin !== null && b.npshMargin !== null && Math.abs(a.npshMargin - b.npshMargin) >= 0.005) {
-    diffs.push(`NPSH margin ${fmtNumExact(b.npshMargin, [a.npshMargin], 2)} against ${fmtNumExact(a.npshMargin, [b.npshMargin], 2)}`);
+    diffs.push(`NPSH margin at duty ${fmtNumExact(b.npshMargin, [a.npshMargin], 2)} against ${fmtNumExact(a.npshMargin, [b.npshMargin], 2)}`);
   }
   const score = a.score - b.score;
   // Scores apart at their printed digits: a row below "on score" never shows the same score as the row above.

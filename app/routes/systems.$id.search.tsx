@@ -10,10 +10,10 @@ import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
-import { bepPercentText, npshMarginText } from "~/components/candidate-figures";
+import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshPointsText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
-import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
+import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
 import { positiveFilter } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
 
@@ -63,9 +63,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     unitSystem: sys,
     message: res.message,
     stats: res.stats,
+    npshaAtDuty: res.npshaAtDuty,
     hidden: res.hidden,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
+    npshRule: res.results.find((r) => r.npsh)?.npsh?.rule ?? null,
     locked: res.locked.map((l) => ({ id: l.id, name: l.name, owner: l.owner, description: l.description, visibility: l.visibility })),
     results: res.results.map((r) => ({
       curveSetId: r.curveSetId,
@@ -80,6 +82,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       bepRatio: r.bepRatio,
       inPor: r.inPor,
       npshMargin: r.npshMargin,
+      // NPSH as the workbench judges it: the design point and the band's corners, the lowest deciding.
+      npsh: r.npsh ? { status: r.npsh.status, range: npshJudgedRange(r.npsh), lowest: r.npsh.status === "unknown" ? null : npshLowestText(sys, r.npsh), points: npshPointsText(sys, r.npsh) } : null,
       shaftPower: r.shaftPower,
       reason: r.reason,
       library: r.library,
@@ -175,7 +179,8 @@ export default function Search({ actionData }: Route.ComponentProps) {
       ) : null}
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
-          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
+          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty
+          {d.stats.rejectedByNpsh ? ` · ${d.stats.rejectedByNpsh} left out because their NPSHr at the duty is above the NPSHa there (${d.npshaAtDuty != null ? fmtQExact(sys, "head", d.npshaAtDuty, [0]) : "—"})` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
@@ -202,7 +207,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                   <th>Verdict</th>
                   <th>Efficiency</th>
                   <th>vs BEP</th>
-                  <th>NPSH margin</th>
+                  <th title={d.npshRule ?? undefined}>NPSH margin over the band</th>
                   <th>Shaft power</th>
                   <th>Why this rank</th>
                   <th />
@@ -234,7 +239,14 @@ export default function Search({ actionData }: Route.ComponentProps) {
                       {r.bepRatio != null ? bepPercentText(r.bepRatio, r.inPor) : "—"}
                       {r.inPor === false ? <span className="text-duty-ink"> outside POR</span> : null}
                     </td>
-                    <td>{r.npshMargin != null ? npshMarginText(r.npshMargin, d.npshMarginWanted) : "—"}</td>
+                    <td data-testid={`search-npsh-${r.curveSetId}`}>
+                      {r.npsh ? (
+                        <span title={r.npsh.points}>
+                          {r.npsh.range ?? "—"}
+                          {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}> — {r.npsh.lowest} ({r.npsh.status})</span> : null}
+                        </span>
+                      ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
+                    </td>
                     <td>{fmtPower(sys, r.shaftPower)}</td>
                     <td className="max-w-md text-xs">{r.reason}</td>
                     <td>
@@ -265,6 +277,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             ) : null}
           </Form>
         )}
+        {d.npshRule ? <p className="mt-2 text-xs text-slate-600" data-testid="search-npsh-rule">NPSH margin over the band: {d.npshRule}. A pump that meets the duty but cavitates somewhere on the band ranks after those that do not.</p> : null}
         <Pager label="Result pages" paging={d.paging} />
       </section>
       {d.locked.length ? (

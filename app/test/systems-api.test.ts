@@ -143,7 +143,7 @@ describe("searchResultView (pure)", () => {
   const base = {
     id: "7", rank: 1, label: "X", method: "trim" as const, ratio: 0.9, speed: 2900, diameter: 0.171, headAtDuty: 30, efficiency: 0.7,
     bepRatio: 1, inPor: true, npshr: 2, npshMargin: 3, shaftPower: 5000, score: 0.6, reason: "r", warnings: [{ code: "w", message: "trim approx" }],
-    curveSetId: 7, modelId: 3, model: "X", type: "inline", size: "DN50", library: "L", setSpeed: 2900, setDiameter: 0.19, verdict: null,
+    curveSetId: 7, modelId: 3, model: "X", type: "inline", size: "DN50", library: "L", setSpeed: 2900, setDiameter: 0.19, verdict: null, npsh: null,
   };
   test("maps method → adjustment.kind and passes a verdict through when the result has one, else null", () => {
     expect(searchResultView(base)).toMatchObject({ modelId: 3, library: "L", verdict: null,
@@ -151,5 +151,10 @@ describe("searchResultView (pure)", () => {
     const verdict = { status: "meets", rule: "r", reasons: ["x"] };
     expect(searchResultView({ ...base, method: "direct", ratio: 1, verdict, library: "Own", modelId: 9 }).adjustment.kind).toBe("none");
     expect(searchResultView({ ...base, verdict, library: "Own", modelId: 9 })).toMatchObject({ verdict, library: "Own", modelId: 9 });
+  });
+  test("passes the band's NPSH judgement through (its NPSHa null when a stored one lacks it), null without", () => {
+    expect(searchResultView(base).npsh).toBeNull();
+    const npsh = { status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", rule: "r", judgedAt: [] };
+    expect(searchResultView({ ...base, npsh }).npsh).toEqual({ status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", available: null, rule: "r" });
   });
 });

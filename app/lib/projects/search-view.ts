@@ -17,6 +17,8 @@ export type SearchResultIn = Pick<
   setDiameter: number | null;
   /** The search's verdict of the pump as offered, or null when it gives none. */
   verdict: unknown;
+  /** NPSH over the design point and the band's corners (the lowest deciding), or null without a verdict. */
+  npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string } | null;
 };
 
 export type SearchResultView = {
@@ -34,6 +36,8 @@ export type SearchResultView = {
   adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null };
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
+  /** NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule }, or null. */
+  npsh: { status: string; marginRatio: number | null; at: string | null; available: number | null; rule: string } | null;
   figures: {
     headAtDuty: number;
     efficiency: number | null;
@@ -63,6 +67,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
     adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter },
     verdict: r.verdict ?? null,
+    npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule } : null,
     figures: {
       headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,
       npshMargin: r.npshMargin, bepRatio: r.bepRatio, inPor: r.inPor, score: r.score,

@@ -10,6 +10,8 @@
 // libraries is a new key, so it is seen at once; any other process builds the same.
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
+import type { NpshJudgement } from "./candidate-judgement";
+import { fmtNumExact } from "~/engine/quantityText";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
 import { LRUCache } from "lru-cache";
@@ -143,7 +145,9 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
  * Least recently used dropped first.
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
-type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Verdict | null> };
+/** What the search keeps of a pump judged as offered on the band: its verdict and its NPSH over the band's corners. */
+type Judged = { verdict: Verdict; npsh: NpshJudgement | null };
+type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Judged | null> };
 const verdictCache = new LRUCache<string, SystemWork>({ max: VERDICT_SYSTEMS_LIMIT });
 function workFor(inputJson: string, input: SystemInput): SystemWork {
   let w = verdictCache.get(inputJson);
@@ -157,16 +161,22 @@ export const clearSearchCaches = () => { preparedCache.clear(); verdictCache.cle
 
 /** The engine options the page searches with (shared with the benchmark, so both time the same search). */
 export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>, filters: SearchFilters): SearchOptions {
-  const duty = input.duty!;
-  const npshaAtDuty = evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - duty.flow) < Math.abs(best.flow - duty.flow) ? p : best), evaluation.npsha[0]);
+  const npshaAtDuty = npshaAtDutyOf(input, evaluation);
   return {
     methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
-    npshAvailable: npshaAtDuty ? Math.max(0, npshaAtDuty.y) : undefined, // below zero (a suction lift past the barometric head): no pump passes, as at zero
+    npshAvailable: npshaAtDuty != null ? Math.max(0, npshaAtDuty) : undefined, // below zero (a suction lift past the barometric head): no pump with an NPSHr passes, as at zero
     requiredNpshMargin: input.npshMargin,
     density: evaluation.fluid.density,
     minSpeedRatio: 0.3,
     limit: SEARCH_EVALUATED * 2,
   };
+}
+
+/** NPSHa at the system curve's point nearest the duty flow, m (what the engine's search judges NPSHr against); null without a duty or points. */
+export function npshaAtDutyOf(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>): number | null {
+  const duty = input.duty;
+  if (!duty || evaluation.npsha.length === 0) return null;
+  return evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - duty.flow) < Math.abs(best.flow - duty.flow) ? p : best)).y;
 }
 
 /** Same model, speed, impeller and points: one distinct curve, however many libraries reach it. */
@@ -184,7 +194,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
@@ -219,40 +229,39 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   }
   // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
   let outsideCatalogue = 0;
-  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null }[] = [];
+  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null }[] = [];
   for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
     const method = g.row.method === "direct" ? "none" : g.row.method;
     const vk = `${g.set.id}#${method}`;
-    let verdict = verdicts.get(vk);
-    if (verdict === undefined) {
+    let judged = verdicts.get(vk);
+    if (judged === undefined) {
       try {
         const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
-        verdict = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) }).verdict;
+        const e = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) });
+        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh } : null;
       } catch {
-        verdict = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
+        judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
       }
-      verdicts.set(vk, verdict);
+      verdicts.set(vk, judged);
     }
+    const verdict = judged?.verdict ?? null;
     if (verdict?.status === "outside-catalogue") {
       outsideCatalogue++;
       if (!filters.allowBeyondCatalogue) continue;
     }
-    kept.push({ ...g, verdict });
+    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null });
   }
-  // Pumps that meet the system rank first, then oversized, short, no operating point (stable within a class).
-  kept.sort((a, b) => verdictClass(a.verdict) - verdictClass(b.verdict));
+  // Pumps that meet the system rank first, then oversized, then those two with a cavitation risk somewhere on the
+  // band, then short, no operating point (stable within a class).
+  kept.sort((a, b) => rankClass(a) - rankClass(b));
   // The page asked for: ranks and "why this rank" run over every row up to its end, so they read the same on every page.
   const { first, ...paging } = pageOf(kept.length, pageSize, opts.page);
   const upTo = kept.slice(0, first + pageSize);
-  const notes = upTo.map((k, i) => {
-    if (i === 0 || verdictClass(k.verdict) === verdictClass(upTo[i - 1].verdict)) return null;
-    const above = upTo[i - 1].verdict;
-    return `below #${i} because its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}" where #${i} ${above ? `is "${verdictLabel(above.status)}"` : "is not judged"}`;
-  });
+  const notes = upTo.map((k, i) => (i === 0 || rankClass(k) === rankClass(upTo[i - 1]) ? null : `below #${i} because ${classText(k, "row")} where #${i} ${classText(upTo[i - 1], "above")}`));
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
-  const results = upTo.slice(first).map(({ set: s, libraries, verdict }, j) => ({
+  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh }, j) => ({
     ...rows[first + j],
     curveSetId: s.id,
     modelId: s.modelId,
@@ -264,9 +273,26 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     library: libraryName.get(s.revisionId) ?? "",
     alsoIn: libraries.filter((l) => l !== (libraryName.get(s.revisionId) ?? "")),
     verdict,
+    /** NPSH over the design point and the band's corners as the workbench judges it (the engine's `npshMargin` is at the duty only). */
+    npsh,
   }));
-  return { system, results, locked, stats: res.stats, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty: npshaAtDutyOf(system.input, evaluation), hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "viscosity-uncorrected", "short", "no-operating-point", "outside-catalogue"] as const;
 const verdictClass = (v: Verdict | null) => (v ? VERDICT_ORDER.indexOf(v.status) : VERDICT_ORDER.length);
+type Ranked = { verdict: Verdict | null; npsh: NpshJudgement | null };
+/** A pump that meets the duty (or is oversized) but cavitates at some corner of the band (common practice: NPSHa below NPSHr, or NPSHa ≤ 0). */
+const cavitates = (k: Ranked) => verdictClass(k.verdict) <= 1 && k.npsh?.status === "cavitation-risk";
+/** Rank class: meets 0, oversized 1, either with a cavitation risk on the band 1.5, then the other verdicts. */
+const rankClass = (k: Ranked) => (cavitates(k) ? 1.5 : verdictClass(k.verdict));
+/** A row's class in words, for "below #n because <row> where #n <above>". */
+function classText(k: Ranked, subject: "row" | "above"): string {
+  if (cavitates(k)) return `${subject === "row" ? "it has" : "has"} a cavitation risk on the band (${npshWhere(k.npsh!)})`;
+  if (subject === "row") return `its verdict is "${k.verdict ? verdictLabel(k.verdict.status) : "not judged"}"`;
+  return k.verdict ? `is "${verdictLabel(k.verdict.status)}"` : "is not judged";
+}
+/** Where the band's NPSH judgement is decided: "NPSHa / NPSHr 0.94 at least lift, aged pipe" (ratio dimensionless, never read as 1). */
+function npshWhere(n: NpshJudgement): string {
+  return n.marginRatio != null ? `NPSHa / NPSHr ${fmtNumExact(n.marginRatio, [1], 2)} at ${n.at}` : `NPSHa not above zero at ${n.at}`;
+}
