@@ -7,7 +7,7 @@ const VERDICTS: [string, string][] = [
   ["oversized", "The pump delivers more than the tolerance above the duty flow; the reasons say what throttling, trim or speed would save."],
   ["outside-catalogue", "The trim or speed needed lies outside what the model publishes (smallest to largest impeller; speed 30–100 % of rated unless the model says otherwise)."],
   ["no-operating-point", "The pump and system curves do not meet; the reasons say why (shut-off head below the static head, curve ends before the system curve, …)."],
-  ["viscosity-uncorrected", "The liquid is more viscous than the water the curve was measured on (ANSI/HI 9.6.7 parameter B above 1) and the water curve would meet the duty or be oversized: it is not corrected for viscosity, so it cannot be signed off as is; the reasons give B and the water curve's result. A short pump stays short."],
+  ["viscosity-uncorrected", "The liquid is more viscous than the water the curve was measured on (ANSI/HI 9.6.7 parameter B above 1) and the curve could not be corrected for it: B above 40, outside the method, or a curve without efficiency (no BEP to correct from). Where the water curve would meet the duty or be oversized it cannot be signed off as is; the reasons give B and the water curve's result. A short pump stays short. With B from 1 to 40 the curve is corrected and the verdict is one of the above, judged on the corrected curve: its rule and first reason give B, C_Q, C_H at the BEP and C_η."],
 ];
 
 const SYSTEM_FIELDS: [string, string][] = [
@@ -15,7 +15,7 @@ const SYSTEM_FIELDS: [string, string][] = [
   ["input", "the stored system inputs (the same document the editor saves and POST …/preview takes)"],
   ["evaluation", "system curve: flows (m³/s), design / low / high head (m) over the band, pressure (Pa), per-run figures at the duty flow, NPSHa (m), warnings; null with systemError when the inputs cannot be evaluated"],
   ["flowMax", "upper end of the evaluated flow range, m³/s"],
-  ["candidates[]", "id, curveSetId, label, library, adjustment (method none/speed/trim, ratio, arrangement, pumps), result (operating point, curve, figures, warnings, and result.verdict { status, rule, reasons }), error"],
+  ["candidates[]", "id, curveSetId, label, library, adjustment (method none/speed/trim, ratio, arrangement, pumps), result (operating point, curve, figures, warnings, result.verdict { status, rule, reasons }, and for a custom liquid result.viscosity { status: corrected / no-correction / outside-method / no-bep / not-checked, b, factors { flow, head, efficiency } }: with corrected, the curve and every figure are on the curve corrected per ANSI/HI 9.6.7), error"],
   ["needsReview[]", "candidates whose stored adjustment does not pass the checks: id, curveSetId, label, library, count, problems [{ path, label, message, stored }], form (the stored values as far as they read); never evaluated, so not among candidates[]"],
 ];
 

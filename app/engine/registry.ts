@@ -1,10 +1,11 @@
 /**
- * The one registry of loss correlations. Method choices in the UI, validity warnings and
- * the docs all come from here. To add a correlation: write the formula in friction.ts with
- * its citation, add an entry below (id, name, formula, validity, reference, units), and add
- * a check against a published or reference value in a test (see README.md).
+ * The one registry of correlations: pipe losses, and the pump's viscosity correction. Method choices in the UI,
+ * validity warnings and the docs all come from here. To add a correlation: write the formula in friction.ts (a loss)
+ * or its own module (viscous.ts) with its citation, add an entry below (id, name, formula, validity, reference, units),
+ * and add a check against a published or reference value in a test (see README.md).
  */
 import { churchill, colebrook, haaland, hazenWilliamsHeadLoss, laminar, swameeJain } from "./friction.ts";
+import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 import type { EngineWarning } from "./errors.ts";
 
 /** Ids of Darcy friction-factor methods. */
@@ -47,7 +48,16 @@ export interface HeadLossCorrelation extends BaseCorrelation {
   fn: (flow: number, diameter: number, length: number, c: number) => number;
 }
 
-export type Correlation = DarcyCorrelation | HeadLossCorrelation;
+/** A pump's correction factors from water to a viscous liquid, as functions of a parameter B. */
+export interface PumpViscosityCorrelation extends BaseCorrelation {
+  kind: "pump-viscosity";
+  /** The range of B the method covers (below its lower end no correction is needed; above its upper end none is made). */
+  validity: { b: Range };
+  /** C_Q, C_BEP-H, C_η (dimensionless) from B (dimensionless). */
+  fn: (b: number) => { flow: number; head: number; efficiency: number };
+}
+
+export type Correlation = DarcyCorrelation | HeadLossCorrelation | PumpViscosityCorrelation;
 
 /** The registry. */
 export const CORRELATIONS: readonly Correlation[] = [
@@ -122,6 +132,17 @@ export const CORRELATIONS: readonly Correlation[] = [
     units: "Q m³/s, D m, L m, C dimensionless → hf m",
     accuracy: "empirical; for water at ordinary temperatures (about 5–30 °C) in turbulent flow",
     fn: hazenWilliamsHeadLoss,
+  },
+  {
+    id: "hi-viscosity",
+    kind: "pump-viscosity",
+    name: "ANSI/HI 9.6.7 viscosity correction of a water pump curve",
+    formula: "B = 26.6·ν^0.5·H^0.0625/(Q^0.375·N^0.25); C_Q = C_BEP-H = 2.71^(−0.165·(log10 B)^3.15); C_H = 1 − (1 − C_BEP-H)·(Q_W/Q_BEP-W)^0.75; C_η = B^(−0.0547·B^0.69)",
+    validity: { b: [VISCOSITY_B_NO_CORRECTION, VISCOSITY_B_MAX] },
+    reference: HI_VISCOSITY_SOURCE,
+    units: "ν cSt, H ft (per stage), Q US gpm at the water BEP, N rpm → B and the factors dimensionless",
+    accuracy: "the standard's empirical fit to tests of radial centrifugal pumps on Newtonian liquids; factors from memory, checked by hand (viscous.test.ts)",
+    fn: (b: number) => viscosityFactors(b),
   },
 ];
 

@@ -229,7 +229,9 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       [(x) => E.judgeCandidate({ dutyFlow: 0.01, edges: [{ name: "a", flow: 0.01, head: x }] }), 10, []],
       [(x) => E.judgeCandidate({ dutyFlow: 0.01, tolerance: { minus: x, plus: 0.1 }, edges: [{ name: "a", flow: 0.01, head: 10 }] }), 0, [-0.1, 1]],
       [(x) => E.judgeCandidate({ dutyFlow: 0.01, tolerance: { minus: 0, plus: x }, edges: [{ name: "a", flow: 0.01, head: 10 }] }), 0.1, [-0.1]],
-      [(x) => E.judgeCandidate({ dutyFlow: 0.01, viscosityB: x, edges: [{ name: "a", flow: 0.01, head: 10 }] }), 16.4, [0, -1]]],
+      [(x) => E.judgeCandidate({ dutyFlow: 0.01, viscosity: { b: x, corrected: true }, edges: [{ name: "a", flow: 0.01, head: 10 }] }), 16.4, [0, -1, 41]],
+      [(x) => E.judgeCandidate({ dutyFlow: 0.01, viscosity: { b: x, corrected: false }, edges: [{ name: "a", flow: 0.01, head: 10 }] }), 44, [0, -1]]],
+    viscosityCorrectionText: [[(x) => E.viscosityCorrectionText(x), 16.4, [0, -1]]],
     nextStandardRating: [[(x) => E.nextStandardRating(x), 5000, [-1]]],
     suggestMotor: [[(x) => E.suggestMotor({ dutyPower: x, maxCurvePower: null }), 5000, [-1]], [(x) => E.suggestMotor({ dutyPower: 5000, maxCurvePower: x }), 6000, [-1]],
       [(x) => E.suggestMotor({ dutyPower: 5000, maxCurvePower: null, serviceFactor: x }), 1.15, [0, 0.5, 2]]],
@@ -257,6 +259,8 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       [(x) => E.viscosityParameterB({ kinematicViscosity: 5e-4, bepFlow: 0.011, bepHead: x, speed: 2900 }), 27, [0, -1]],
       [(x) => E.viscosityParameterB({ kinematicViscosity: 5e-4, bepFlow: 0.011, bepHead: 27, speed: x }), 2900, [0, -1]]],
     viscosityFactors: [[(x) => E.viscosityFactors(x), 16.4, [0, -1]]],
+    correctCurveForViscosity: [[(x) => E.correctCurveForViscosity(curve, { kinematicViscosity: x, speed: 2900 }), 2e-4, [0, -1]],
+      [(x) => E.correctCurveForViscosity(curve, { kinematicViscosity: 2e-4, speed: x }), 2900, [0, -1]]],
     toSI: [[(x) => E.toSI("flow", "m3/h", x), 1, []]],
     fromSI: [[(x) => E.fromSI("flow", "m3/h", x), 1, []]],
     convert: [[(x) => E.convert("flow", x, "m3/h", "gpm"), 1, []]],
@@ -273,6 +277,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
   };
   /** Every mode/kind/enum parameter with an unknown value. */
   const enums: [string, () => unknown][] = [
+    ["judgeCandidate viscosity.corrected", () => E.judgeCandidate({ dutyFlow: 0.01, viscosity: { b: 16.4, corrected: "yes" as never }, edges: [{ name: "a", flow: 0.01, head: 10 }] })],
     ["flowPerPump mode 'Parallel'", () => E.flowPerPump(0.01, { mode: "Parallel" as never, duty: 2 })],
     ["combinePumps mode", () => E.combinePumps(curve, { mode: "tandem" as never, duty: 2 })],
     ["systemHead level", () => E.systemHead(sys, 0.01, { level: "Max" as never })],

@@ -18,10 +18,11 @@
  *    say what throttling, trim or speed would save.
  * 5. `meets` — otherwise.
  * A liquid more viscous than the water the curve was measured on (ANSI/HI 9.6.7 parameter B above 1, from
- * memory: viscous.ts) qualifies rules 4 and 5: the water curve's `meets` or `oversized` becomes
- * `viscosity-uncorrected` (the curve must be corrected for viscosity before it can be signed off; the water
- * curve's result is kept in the reasons). A `short` stays short (viscosity lowers head, flow and efficiency),
- * with the reason said.
+ * memory: viscous.ts): where the caller judged the edges on the curve corrected for viscosity (1 < B ≤ 40,
+ * `correctCurveForViscosity`), rules 2–5 stand as judged and the verdict says so, with B and the factors C_Q,
+ * C_H at the BEP and C_η. Where it could not correct (B above 40, outside the method; or no water BEP), the
+ * water curve's `meets` or `oversized` becomes `viscosity-uncorrected` (the water curve's result kept in the
+ * reasons); a `short` stays short (viscosity lowers head, flow and efficiency), with the reason said.
  * Default duty flow tolerance −0 % / +10 % (common practice: the duty flow is a minimum,
  * a tenth more is accepted margin). Comparisons allow 1 part in 10⁶ for solver round-off.
  * Pure: numbers in, words out.
@@ -29,7 +30,7 @@
 import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
 import { MAX_TRIM_FRACTION } from "./affinity.ts";
-import { HI_VISCOSITY_SOURCE, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
+import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point" | "viscosity-uncorrected";
 
@@ -106,10 +107,11 @@ export interface VerdictInput {
   powerNow?: number | null;
   savings?: SavingOption[];
   /**
-   * The pumped liquid's ANSI/HI 9.6.7 parameter B at the pump's water BEP (dimensionless; viscous.ts), null or absent
-   * when the liquid is the water the curve was measured on. Above 1 the water curve cannot be signed off as is.
+   * The pumped liquid's ANSI/HI 9.6.7 parameter B at the pump's water BEP (dimensionless; viscous.ts) and whether the
+   * edges were judged on the curve corrected for it; null or absent when the liquid is the water the curve was measured
+   * on. B above 1 uncorrected: the water curve cannot be signed off as is. `corrected` with B above 40 is refused.
    */
-  viscosityB?: number | null;
+  viscosity?: { b: number; corrected: boolean } | null;
 }
 
 export interface Verdict {
@@ -192,26 +194,55 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
  */
 export function judgeCandidate(input: VerdictInput): Verdict | null {
   if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
-  const b = input.viscosityB == null ? null : requirePositive("viscosityB", input.viscosityB);
-  const onWater = judgeOnWater(input);
-  return b === null || b <= VISCOSITY_B_NO_CORRECTION || !onWater ? onWater : qualifyForViscosity(onWater, b);
+  const visc = input.viscosity ?? null;
+  if (visc !== null && (!visc || typeof visc !== "object" || typeof visc.corrected !== "boolean")) throw new EngineInputError("viscosity", "must be { b, corrected }");
+  const b = visc === null ? null : requirePositive("viscosity.b", visc.b);
+  if (b !== null && visc!.corrected && b > VISCOSITY_B_MAX) throw new EngineInputError("viscosity.corrected", `B above ${VISCOSITY_B_MAX} is outside the ANSI/HI 9.6.7 method: no curve is corrected there`);
+  const judged = judgeOnWater(input);
+  if (b === null || b <= VISCOSITY_B_NO_CORRECTION || !judged) return judged;
+  return visc!.corrected ? onCorrectedCurve(judged, b) : qualifyForViscosity(judged, b);
 }
 
-/** B as printed beside its limit: never "1.00 > 1". */
-const bText = (b: number) => fmtNumExact(b, [VISCOSITY_B_NO_CORRECTION], 2);
+/** B as printed beside its limits: never "1.00 > 1" nor "40.0 > 40". */
+const bText = (b: number) => fmtNumExact(b, [VISCOSITY_B_NO_CORRECTION, VISCOSITY_B_MAX], 2);
 
 /**
- * A verdict on the water curve for a liquid with B above 1: `meets` and `oversized` become `viscosity-uncorrected`,
- * `short` stays short with the reason; the catalogue and no-operating-point verdicts are unchanged.
+ * The correction as applied, in words with B and its factors (ANSI/HI 9.6.7, from memory).
+ * @param b the parameter B (dimensionless, > 0)
+ * @param full add the head law and the source (a flag, unitless)
+ */
+export function viscosityCorrectionText(b: number, full = true): string {
+  const f = viscosityFactors(requirePositive("b", b));
+  const short = `curve corrected for viscosity per ANSI/HI 9.6.7: B = ${bText(b)}, C_Q ${f.flow.toFixed(3)}, C_H at BEP ${f.head.toFixed(3)}, C_η ${f.efficiency.toFixed(3)}`;
+  return full ? `${short} (head at other flows C_H = 1 − (1 − C_BEP-H)·(Q_W/Q_BEP-W)^0.75; ${HI_VISCOSITY_SOURCE})` : short;
+}
+
+/** A verdict judged on the curve corrected for viscosity: as judged, saying so in its rule and first reason. */
+function onCorrectedCurve(v: Verdict, b: number): Verdict {
+  if (v.status === "outside-catalogue") return v; // the catalogue's limits are not about the curve
+  return { ...v, rule: `${v.rule}; judged on the ${viscosityCorrectionText(b, false)}`,
+    reasons: [`Figures on the pumped liquid: ${viscosityCorrectionText(b)}.`, ...v.reasons] };
+}
+
+/**
+ * A verdict on the water curve for a liquid with B above 1 that was not corrected (B above 40, outside the method; or
+ * no water BEP): `meets` and `oversized` become `viscosity-uncorrected`, `short` stays short with the reason; the
+ * catalogue and no-operating-point verdicts are unchanged.
  */
 function qualifyForViscosity(v: Verdict, b: number): Verdict {
   const f = viscosityFactors(b);
-  const why = `The pumped liquid's ANSI/HI 9.6.7 parameter B is ${bText(b)}, above ${VISCOSITY_B_NO_CORRECTION}: on it the pump gives less head, flow and efficiency than its water curve (at the BEP about ${fmtPct(f.head, 0)} of the head and flow and ${fmtPct(f.efficiency, 0)} of the efficiency, ${HI_VISCOSITY_SOURCE}).`;
-  if (v.status === "short") return { ...v, reasons: [...v.reasons, `${why} Corrected, it falls further short.`] };
+  const outside = b > VISCOSITY_B_MAX;
+  const less = outside
+    ? `far below its water curve: B is above ${VISCOSITY_B_MAX}, outside the ANSI/HI 9.6.7 method's range, so no correction is possible (${HI_VISCOSITY_SOURCE})`
+    : `less head, flow and efficiency than its water curve (at the BEP about ${fmtPct(f.head, 0)} of the head and flow and ${fmtPct(f.efficiency, 0)} of the efficiency, ${HI_VISCOSITY_SOURCE}), but the curve gives no efficiency, so no water BEP to correct it from`;
+  const why = `The pumped liquid's ANSI/HI 9.6.7 parameter B is ${bText(b)}, above ${VISCOSITY_B_NO_CORRECTION}: on it the pump gives ${less}.`;
+  if (v.status === "short") return { ...v, reasons: [...v.reasons, `${why} On the liquid it falls further short.`] };
   if (v.status !== "meets" && v.status !== "oversized") return v;
   return { status: "viscosity-uncorrected", edge: v.edge,
-    rule: `viscosity-uncorrected: a pump curve measured on water is judged on a liquid with ANSI/HI 9.6.7 parameter B above ${VISCOSITY_B_NO_CORRECTION} only once corrected for viscosity (B = ${bText(b)})`,
-    reasons: [`${why} The water curve was not corrected for viscosity: this pump cannot be signed off as is; correct the curve (or ask the maker for one on this liquid) and judge again.`,
+    rule: outside
+      ? `viscosity-uncorrected: outside the method — ANSI/HI 9.6.7 corrects a water curve only for B up to ${VISCOSITY_B_MAX} (B = ${bText(b)})`
+      : `viscosity-uncorrected: a pump curve measured on water is judged on a liquid with ANSI/HI 9.6.7 parameter B above ${VISCOSITY_B_NO_CORRECTION} only once corrected for viscosity, which needs the water BEP (B = ${bText(b)})`,
+    reasons: [`${why} The water curve is not corrected for viscosity: this pump cannot be signed off as is; ask the maker for its performance on this liquid (a test or their own correction) and judge again.`,
       ...v.reasons.map((r) => `On the water curve (${v.status === "meets" ? "meets the duty" : "oversized"}): ${r}`)] };
 }
 

@@ -18,7 +18,7 @@ import { fluidAt } from "~/engine";
 import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, searchForSystem, selectCandidate } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, evaluateSystem, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
-import { readStoredSelection } from "~/lib/projects/stored-selection";
+import { readStoredSelection, type FrozenSelection } from "~/lib/projects/stored-selection";
 import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { parseCheckFields } from "~/lib/fieldchecks";
 import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
@@ -94,6 +94,28 @@ test("every document the app freezes reads (demo systems, booster and a duty-les
   // The field-check fixture: no system curve, no energy, an empty library record (selections frozen before those existed).
   const fixture = readStoredSelection(JSON.stringify(frozenFixture()));
   expect(fixture.ok ? [] : fixture.problems).toEqual([]);
+});
+
+test("a viscous liquid: a selection frozen now (curve corrected per ANSI/HI 9.6.7) and one frozen before the correction ('viscosity-uncorrected', no result.viscosity) both read, and the report shows each as stored", async () => {
+  // An oil (invented: 900 kg/m³, 0.05 Pa·s = 55.6 cSt) on the booster: B well above 1 on the demo pumps (ANSI/HI 9.6.7, from memory).
+  const oil: SystemInput = { ...booster(), fluid: { kind: "custom", name: "Test oil", density: 900, dynamicViscosity: 0.05, vaporPressure: 100 } };
+  const { selectionId } = await freeze("Booster on oil", oil);
+  const now = JSON.parse(await frozenJsonOf(selectionId));
+  expect(now.result.viscosity?.status).toBe("corrected"); // control: the frozen result carries the correction
+  expect(now.result.verdict.reasons[0]).toMatch(/^Figures on the pumped liquid: curve corrected for viscosity per ANSI\/HI 9\.6\.7: B = /);
+  const readNow = readStoredSelection(JSON.stringify(now));
+  expect(readNow.ok ? [] : readNow.problems).toEqual([]);
+  // As the code before the correction froze it: the water curve, the verdict 'viscosity-uncorrected' and no result.viscosity.
+  const { viscosity: _v, ...oldResult } = now.result;
+  const before = { ...now, result: { ...oldResult, verdict: { status: "viscosity-uncorrected", edge: "most lift, aged pipe",
+    rule: "viscosity-uncorrected: a pump curve measured on water is judged on a liquid with ANSI/HI 9.6.7 parameter B above 1 only once corrected for viscosity (B = 9.05)",
+    reasons: ["The pumped liquid's ANSI/HI 9.6.7 parameter B is 9.05, above 1: … cannot be signed off as is; correct the curve (or ask the maker for one on this liquid) and judge again.", "On the water curve (meets the duty): Delivers …"] } } };
+  const readBefore = readStoredSelection(JSON.stringify(before));
+  expect(readBefore.ok ? [] : readBefore.problems).toEqual([]);
+  await db().update(selections).set({ frozenJson: JSON.stringify(before) }).where(eq(selections.id, selectionId));
+  const page = await call(selectionPage.loader as never, { path: `/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
+  expect(page.status).toBe(200);
+  expect((page.body as { frozen: FrozenSelection }).frozen.result.verdict?.status).toBe("viscosity-uncorrected");
 });
 
 type Corruption = { name: string; corrupt: (f: Record<string, any>) => string; label: string; message: RegExp; stored: string | null }; // eslint-disable-line @typescript-eslint/no-explicit-any

@@ -31,11 +31,13 @@ import {
   type OperatingPointResult,
   type PreparedSystem,
   type PumpCurve,
+  type RatioSolution,
   type SavingOption,
   type SystemCase,
   type Verdict,
 } from "~/engine";
 import { fmtPct, qt, qtPair } from "~/engine/quantityText";
+import type { LiquidSolver } from "./candidate-solve";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -174,6 +176,8 @@ type Ctx = {
   arrangement: "single" | "parallel" | "series";
   n: number;
   suction: { surfacePressure: number; staticHead: number };
+  /** On a liquid the curve is corrected for (candidate-solve.ts): speed and trim for the savings are solved on it. */
+  liquid?: LiquidSolver | null;
 };
 
 /** Operating points and figures at both edges of the band. */
@@ -214,31 +218,40 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   const at = (c: PumpCurve) => (per.flow >= c.flowMin && per.flow <= c.flowMax ? shaftPowerAt(c, per.flow, rho) : null);
   const times = (p: number | null) => (p == null ? null : p * k);
   const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${qt("flow", duty.flow)} flows` }];
+  // On the liquid: the ratio solved on the corrected curve, its power there (null when even full speed or impeller falls short).
+  const onLiquid = (method: "speed" | "trim", water: RatioSolution) => {
+    const r = ctx.liquid ? ctx.liquid.solve(method, per, water) : water.ratio;
+    return r == null ? null : { r, curve: ctx.liquid ? ctx.liquid.at(method, r) : (method === "speed" ? scaleBySpeed(ctx.base, r) : scaleByTrim(ctx.base, r)).curve };
+  };
   const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
-  if (sp.status === "ok" && sp.ratio) {
+  const spl = sp.status === "ok" && sp.ratio ? onLiquid("speed", sp) : null;
+  if (spl) {
     const rated = catalogue?.ratedSpeed ?? null;
-    const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(sp.speed != null && rated != null ? { speed: sp.speed, ratedSpeed: rated } : { speedRatio: sp.ratio }) });
-    out.push({ means: "speed", power: times(at(scaleBySpeed(ctx.base, sp.ratio).curve)), how: `${fmtPct(sp.ratio)} speed${sp.speed ? ` (${Math.round(sp.speed)} rpm)` : ""}`, outside });
+    const speed = ctx.base.speed != null ? ctx.base.speed * spl.r : null;
+    const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(speed != null && rated != null ? { speed, ratedSpeed: rated } : { speedRatio: spl.r }) });
+    out.push({ means: "speed", power: times(at(spl.curve)), how: `${fmtPct(spl.r)} speed${speed ? ` (${Math.round(speed)} rpm)` : ""}`, outside });
   }
   const tr = trimForDuty(ctx.base, per);
-  if (tr.status === "ok" && tr.ratio) {
-    const outside = catalogueReasons({ diameter: tr.diameter, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: tr.ratio });
-    out.push({ means: "trim", power: times(at(scaleByTrim(ctx.base, tr.ratio).curve)), how: `impeller trimmed to ${fmtPct(tr.ratio)}${tr.diameter ? ` (Ø${qt("diameter", tr.diameter)})` : ""}, approximate`, outside });
+  const trl = tr.status === "ok" && tr.ratio ? onLiquid("trim", tr) : null;
+  if (trl) {
+    const d = ctx.base.impellerDiameter != null ? ctx.base.impellerDiameter * trl.r : null;
+    const outside = catalogueReasons({ diameter: d, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: trl.r });
+    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (Ø${qt("diameter", d)})` : ""}, approximate`, outside });
   }
   return out;
 }
 
 /**
- * The verdict on the band (worst edge), with savings when oversized on the water curve; `viscosityB` (dimensionless,
- * ANSI/HI 9.6.7: viscosity-check.ts) qualifies it for a liquid more viscous than the curve's water.
+ * The verdict on the band (worst edge), with savings when oversized; `viscosity` (B dimensionless, ANSI/HI 9.6.7, and
+ * whether the band was solved on the curve corrected for it: viscosity-check.ts) for a liquid more viscous than water.
  */
-export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number; head: number } | null, tolerance: { minus: number; plus: number }, catalogue: CatalogueLimits | undefined, viscosityB: number | null = null): Verdict | null {
+export function verdictOnBand(ctx: Ctx, band: BandPoint[], duty: { flow: number; head: number } | null, tolerance: { minus: number; plus: number }, catalogue: CatalogueLimits | undefined, viscosity: { b: number; corrected: boolean } | null = null): Verdict | null {
   const edges = band.map((b) => ({ name: b.edge, flow: b.flow, head: b.head, noPointReason: b.reason ?? undefined }));
   const first = judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue });
-  if (first?.status !== "oversized" || !duty) return viscosityB == null ? first : judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue, viscosityB });
+  if (first?.status !== "oversized" || !duty) return viscosity == null ? first : judgeCandidate({ dutyFlow: duty?.flow ?? null, tolerance, edges, catalogue, viscosity });
   const worst = band.reduce((a, b) => ((b.flow ?? Infinity) < (a.flow ?? Infinity) ? b : a));
   const governing = systemHeadFunction(ctx.prepared, bandEdges(ctx.mode).find((e) => e.name === worst.edge)!.which)(duty.flow);
-  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }, catalogue), viscosityB });
+  return judgeCandidate({ dutyFlow: duty.flow, tolerance, edges, catalogue, powerNow: worst.shaftPower, savings: savingOptions(ctx, { flow: duty.flow, head: governing }, catalogue), viscosity });
 }
 
 /**

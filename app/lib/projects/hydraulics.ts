@@ -8,7 +8,6 @@ import {
   overloadCheck,
   createPumpCurve,
   EngineInputError,
-  headAt,
   operatingFigures,
   pipeHeadLoss,
   prepareSystem,
@@ -16,11 +15,9 @@ import {
   scaleBySpeed,
   scaleByTrim,
   solveOperatingPoint,
-  speedForDuty,
   suctionLoss,
   systemCurve,
   systemHeadFunction,
-  trimForDuty,
   DEFAULT_FLOW_TOLERANCE,
   DEFAULT_IE_CLASS,
   LAMINAR_MAX_RE,
@@ -36,7 +33,8 @@ export * from "./system-input";
 export * from "./candidate-input";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, fmtPctExact, qt, qtExact, qtPair } from "~/engine/quantityText";
-import { viscosityCheck } from "./viscosity-check";
+import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
+import { adjustedRatio, liquidSolver } from "./candidate-solve";
 
 export type RunReport = {
   name: string;
@@ -213,6 +211,11 @@ export type CandidateEvaluation = {
   verdict: Verdict | null;
   /** ANSI/HI 9.6.7 parameter B of a custom liquid at one pump's water BEP (dimensionless); null for water or when unknown. */
   viscosityB: number | null;
+  /**
+   * How the water curve stands on the liquid (viscosity-check.ts): corrected (every figure above is on the corrected
+   * curve), no correction needed, outside the method, no BEP, not checked; with B and the factors applied. Null for water.
+   */
+  viscosity: ReturnType<typeof viscositySummary>;
   warnings: string[];
 };
 
@@ -230,44 +233,33 @@ export function evaluateCandidate(
   const sysHead = systemHeadFunction(prepared);
   // Speed/trim solves aim at the band's demanding edge, where the verdict is judged.
   const governingHead = systemHeadFunction(prepared, GOVERNING_CASE);
-  let ratio = 1;
-  let ratioNote: string | null = null;
-  let curve: PumpCurve = base;
+  // Speed/trim solves aim at the band's demanding edge, where the verdict is judged, on the system's liquid.
+  const liquid: Liquid = { kind: input.fluid.kind, name: input.fluid.kind === "custom" ? input.fluid.name : "water", kinematicViscosity: prepared.fluid.kinematicViscosity, density: prepared.fluid.density };
+  const solver = liquidSolver(base, liquid, set.speed);
   const n = adj.arrangement === "single" ? 1 : adj.dutyPumps;
+  const adjusted = adjustedRatio(base, adj, input.duty ? { flow: input.duty.flow, systemHead: governingHead(input.duty.flow), edge: governingName(input.mode), typedHead: input.duty.head } : null, solver);
+  const { ratio } = adjusted;
+  const ratioNote = adjusted.note;
+  warnings.push(...adjusted.warnings);
+  let water: PumpCurve = base;
   if (adj.method !== "none") {
-    if (adj.ratio != null) ratio = adj.ratio;
-    else if (input.duty) {
-      // Solve on one pump's share of the duty.
-      const hSys = governingHead(input.duty.flow);
-      const perPump = adj.arrangement === "parallel" ? { flow: input.duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: input.duty.flow, head: hSys / n } : { flow: input.duty.flow, head: hSys };
-      const where = `the system's head at the duty flow ${qt("flow", input.duty.flow)}, ${qt("head", hSys)} at ${governingName(input.mode)} (typed duty head ${qt("head", input.duty.head)})`;
-      // Downhill: no pump head is needed at the duty flow, so there is no speed or trim to solve for (the engine
-      // refuses a duty head ≤ 0); the pump is judged as published, with the reason.
-      const sol = hSys <= 0 ? null : adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
-      if (sol) warnings.push(...wText(sol.warnings));
-      if (!sol) {
-        ratioNote = `not solved: ${where} is not above zero, so gravity alone delivers the duty flow and there is no head to ${adj.method === "trim" ? "trim" : "slow"} the pump to; judged at full ${adj.method === "trim" ? "impeller" : "speed"}`;
-      } else if (sol.status === "ok" && sol.ratio) {
-        ratio = sol.ratio;
-        ratioNote = `solved to deliver the duty flow against ${where}`;
-      } else if (sol.status === "duty-above-curve") {
-        const h1 = perPump.flow >= base.flowMin && perPump.flow <= base.flowMax ? headAt(base, perPump.flow) : null;
-        ratioNote = `could not be solved: ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${qt("head", h1)} per pump at ${qt("flow", perPump.flow)})` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it`;
-      } else {
-        ratioNote = `could not be solved against ${where}: ${sol.message}`;
-      }
-    }
     const scaled = adj.method === "speed" ? scaleBySpeed(base, ratio) : scaleByTrim(base, ratio);
     warnings.push(...wText(scaled.warnings));
     if (adj.method === "trim") warnings.push("Impeller trim figures use the affinity approximation (Q ∝ D, H ∝ D²); confirm with the manufacturer's trimmed curve.");
-    curve = scaled.curve;
+    water = scaled.curve;
   }
-  let combined = curve;
-  if (adj.arrangement !== "single") {
-    const c = combinePumps(curve, { mode: adj.arrangement, duty: adj.dutyPumps, standby: adj.standbyPumps });
-    warnings.push(...wText(c.warnings));
-    combined = c.curve;
-  }
+  const combine = (c: PumpCurve) => (adj.arrangement === "single" ? { curve: c, warnings: [] } : combinePumps(c, { mode: adj.arrangement, duty: adj.dutyPumps, standby: adj.standbyPumps }));
+  // The water curve on the system's liquid (ANSI/HI 9.6.7 B at one pump's water BEP and the speed in use): corrected
+  // for viscosity where the method allows, and every figure below is on it. Without a BEP, B at the water operating point.
+  const visc = viscosityCheck(liquid, water, set.speed != null ? set.speed * (adj.method === "speed" ? ratio : 1) : null, () => {
+    const o = solveOperatingPoint(combine(water).curve, sysHead);
+    return o.flow != null && o.head != null ? { flow: adj.arrangement === "parallel" ? o.flow / n : o.flow, head: adj.arrangement === "series" ? o.head / n : o.head } : null;
+  });
+  warnings.push(...visc.warnings);
+  const curve = visc.curve;
+  const both = combine(curve);
+  warnings.push(...wText(both.warnings));
+  const combined = both.curve;
   const op = solveOperatingPoint(combined, sysHead);
   warnings.push(...wText(op.warnings));
   const sampled = sampleCurve(combined, 41, prepared.fluid.density);
@@ -337,7 +329,7 @@ export function evaluateCandidate(
       por = { minFlow: f.bep.flow * 0.7 * m, maxFlow: f.bep.flow * 1.2 * m };
     }
   }
-  const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead } };
+  const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
   const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin);
@@ -357,12 +349,7 @@ export function evaluateCandidate(
         trimRatio: adj.method === "trim" ? ratio : null,
       }
     : adj.method === "speed" ? { speedRatio: ratio } : adj.method === "trim" ? { trimRatio: ratio } : undefined;
-  // The water curve on the system's liquid (ANSI/HI 9.6.7 B at one pump's water BEP and the speed in use).
-  const perPumpOp = op.flow != null && op.head != null ? { flow: adj.arrangement === "parallel" ? op.flow / n : op.flow, head: adj.arrangement === "series" ? op.head / n : op.head } : null;
-  const visc = viscosityCheck({ kind: input.fluid.kind, name: input.fluid.kind === "custom" ? input.fluid.name : "water", kinematicViscosity: prepared.fluid.kinematicViscosity },
-    curve, set.speed != null ? set.speed * (adj.method === "speed" ? ratio : 1) : null, perPumpOp);
-  warnings.push(...visc.warnings);
-  const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue, visc.b);
+  const verdict = verdictOnBand(ctx, band, input.duty, input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE, catalogue, verdictViscosity(visc));
   return {
     status: op.status,
     message: op.message,
@@ -379,6 +366,7 @@ export function evaluateCandidate(
     npsh,
     verdict,
     viscosityB: visc.b,
+    viscosity: viscositySummary(visc),
     warnings: [...new Set(warnings)],
   };
 }
