@@ -8,7 +8,7 @@ import { fmtDate, fmtDateTime } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
 export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; byName: string; byWorkspace: string } & (
-  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string }
+  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; power: string }
   | { readable: false; unreadable: string }
 );
 
@@ -44,7 +44,10 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                   <td>
                     <VerdictBadge verdict={c.verdict} />
                   </td>
-                  <td className="max-w-xs text-xs">{c.rule}</td>
+                  <td className="max-w-xs text-xs">
+                    {c.rule}
+                    <div className="text-slate-600">{c.power}</div>
+                  </td>
                 </>
               ) : (
                 <td colSpan={3} className="max-w-md text-xs" data-testid="unreadable-check">

@@ -31,6 +31,8 @@ export function GradeTable({ highlight }: { highlight?: string }) {
             <th className="py-1">Grade</th>
             <th>Flow</th>
             <th>Head</th>
+            <th>Power</th>
+            <th>Efficiency</th>
           </tr>
         </thead>
         <tbody>
@@ -43,6 +45,8 @@ export function GradeTable({ highlight }: { highlight?: string }) {
               <td>
                 −{fmtPctLimit(g.head[0])} / +{fmtPctLimit(g.head[1])}
               </td>
+              <td>{g.powerAbove !== undefined ? `≤ +${fmtPctLimit(g.powerAbove)}` : "—"}</td>
+              <td>{g.efficiencyBelow !== undefined ? (g.efficiencyBelow === 0 ? "≥ the curve's" : `≥ −${fmtPctLimit(g.efficiencyBelow)}`) : "—"}</td>
             </tr>
           ))}
         </tbody>
@@ -51,6 +55,10 @@ export function GradeTable({ highlight }: { highlight?: string }) {
         ISO 9906's tolerance cross: a point passes a grade when it meets either arm — its head within the head tolerance of the curve's head at the
         measured flow (head arm), or its flow within the flow tolerance of the curve's flow at the measured head (flow arm), the curve taken at the
         measured speed. “At the tolerance limit”: outside the grade as read, inside it within the gauges' and the flow meter's stated accuracy.
+        Where a power was recorded with the motor's efficiency, the grade is met only if, as well, the shaft power (input × motor efficiency) is at
+        most the allowance above the curve's at the measured flow, and the pump's efficiency (ρ·g·Q·H / shaft power) at most the allowance below the
+        curve's — the efficiency allowance read as a fraction of the curve's efficiency, not percentage points (our reading from memory: verify
+        against the standard). Without a power, or without the motor's efficiency, power and efficiency are not judged and the check says so.
       </p>
     </details>
   );

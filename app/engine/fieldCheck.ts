@@ -9,15 +9,17 @@
  * band from the gauge accuracy (root-sum-square of both gauges, as independent errors)
  * is carried through the curve: flat curves give wide bands.
  * Tolerance grades are data (ISO 9906:2012, from memory — correct them here if needed); a point meets a
- * grade on either arm of the standard's tolerance cross (gradeCross).
+ * grade when it meets either arm of the standard's tolerance cross (gradeCross) AND, where a shaft power was
+ * measured, the grade's power and efficiency limits (gradePower.ts: how each allowance is applied).
  */
 import { EngineInputError, requireFinite, requireFiniteResult, requireInRange, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
 import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
+import { gradePower, type GradePowerCheck } from "./gradePower.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { fmtPctExact } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit } from "./quantityText.ts";
 
 /** An acceptance grade: allowed deviations as fractions, [below, above]. */
 export interface ToleranceGrade {
@@ -26,9 +28,9 @@ export interface ToleranceGrade {
   flow: readonly [number, number];
   /** Head tolerance, fractions. */
   head: readonly [number, number];
-  /** Power may exceed by this fraction (optional). */
+  /** Shaft power may exceed the curve's by this fraction of it (ISO 9906 tP; optional; gradePower.ts). */
   powerAbove?: number;
-  /** Efficiency may fall short by this fraction (optional). */
+  /** Efficiency may fall short of the curve's by this fraction of it — relative, not percentage points (ISO 9906 tη, our reading from memory; optional; gradePower.ts). */
   efficiencyBelow?: number;
   source: string;
 }
@@ -57,6 +59,7 @@ export function checkGrade(grade: ToleranceGrade, name = "grade"): void {
     if (!Array.isArray(pair) || pair.length !== 2) throw new EngineInputError(`${name}.${key}`, "must be [below, above] fractions");
     pair.forEach((v, i) => requireInRange(`${name}.${key}[${i}]`, v, 0, 1));
   }
+  for (const key of ["powerAbove", "efficiencyBelow"] as const) if (grade[key] !== undefined) requireInRange(`${name}.${key}`, grade[key], 0, 1);
 }
 
 /** One pressure gauge. */
@@ -79,7 +82,7 @@ export interface FieldCheckInput {
   discharge: GaugeReading;
   /** Measured flow, m³/s (omit when there is no flow meter). */
   measuredFlow?: number;
-  /** Measured shaft power, W (optional). */
+  /** Measured shaft power, W (optional): a motor's input power × its efficiency, never the input power itself (the curve's power is shaft power). */
   measuredPower?: number;
   /** Grades to judge against (default {@link TOLERANCE_GRADES}). */
   grades?: readonly ToleranceGrade[];
@@ -106,8 +109,11 @@ export interface FieldCheckResult {
   powerDeviation: number | null;
   /** Inferred flow band from gauge accuracy, m³/s (null bound: beyond the curve). */
   flowBand: { low: number | null; high: number | null; headUncertainty: number } | null;
-  /** Verdict per grade (measured flow only), with its tolerance cross (null when the head is not above zero). */
-  grades: { id: string; pass: boolean; cross?: GradeCross | null }[];
+  /**
+   * Verdict per grade (measured flow only): met when its tolerance cross is met (null when the head is not above zero)
+   * and its power and efficiency limits are not missed (`power`: null when no shaft power was measured — not judged).
+   */
+  grades: { id: string; pass: boolean; cross?: GradeCross | null; power?: GradePowerCheck | null }[];
   /** Tightest grade met, or null. */
   bestGrade: string | null;
   verdict: "within-tolerance" | "outside-tolerance" | "no-flow-meter" | "off-curve";
@@ -223,6 +229,22 @@ export function withinGrade(curve: PumpCurve | PumpCurveInput, flow: number, hea
   return gradeCross(curve, flow, head, grade).pass;
 }
 
+/** What a grade met on flow and head says of power and efficiency: judged, or not and why. */
+function powerClause(measured: boolean, p: GradePowerCheck | null): string {
+  if (!measured) return " on flow and head; power and efficiency not judged (no shaft power measured)";
+  if (!p || p.pass === null) return " on flow and head; power and efficiency not judged (the curve gives neither at this flow)";
+  return `, power and efficiency included`;
+}
+
+/** The limits a grade misses, with their numbers: "power limit (+12.0 % against +4 % allowed)". */
+function missedLimits(p: GradePowerCheck): string {
+  const said: string[] = [];
+  const pct = (x: number, a: number) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), [a])}`;
+  if (p.power?.pass === false) said.push(`power limit (${pct(p.power.deviation!, p.power.allowed)} against +${fmtPctLimit(p.power.allowed)} allowed)`);
+  if (p.efficiency?.pass === false) said.push(`efficiency limit (${pct(p.efficiency.deviation!, p.efficiency.allowed)} against ${p.efficiency.allowed === 0 ? "0 %" : `−${fmtPctLimit(p.efficiency.allowed)}`} allowed)`);
+  return said.join(" and ");
+}
+
 /**
  * Field check: delivered duty, deviation from the curve, and a verdict.
  * @param input curve (SI), fluid (SI), gauges (Pa, m, m, ± Pa), measuredFlow m³/s, measuredPower W, grades (fractions), duty (m³/s, m)
@@ -265,15 +287,19 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
     }
     const verdicts = grades.map((g) => {
       const cross = t.tdh > 0 ? gradeCross(c, q, t.tdh, g) : null;
-      return { id: g.id, pass: cross !== null && cross.pass, cross };
+      const power = input.measuredPower !== undefined ? gradePower(c, q, t.tdh, rho, input.measuredPower, g) : null;
+      return { id: g.id, pass: cross !== null && cross.pass && power?.pass !== false, cross, power };
     });
     const best = verdicts.find((v) => v.pass)?.id ?? null;
+    const bestPower = verdicts.find((v) => v.pass)?.power ?? null;
+    const missedOnPower = verdicts.find((v) => v.cross?.pass && v.power?.pass === false) ?? null;
     if (curveHead === null) warnings.push({ code: "flow-off-curve", message: "measured flow lies outside the published curve" });
     dutyDeviation = dutyDev(q, t.tdh);
     const verdict = best ? "within-tolerance" : curveHead === null && qAtH === null ? "off-curve" : "outside-tolerance";
     return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "measured", curveHead,
       headDeviation, flowDeviation, powerDeviation, flowBand: null, grades: verdicts, bestGrade: best, verdict, dutyDeviation,
-      message: best ? `Delivered point is within grade ${best} of the curve`
+      message: best ? `Delivered point is within grade ${best} of the curve${powerClause(input.measuredPower !== undefined, bestPower)}`
+        : missedOnPower ? `Delivered point meets grade ${missedOnPower.id} on flow and head but misses its ${missedLimits(missedOnPower.power!)}`
         : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctExact(headDeviation, grades.flatMap((g) => [-g.head[0], g.head[1]]))} from curve)` : ""}`,
       warnings };
   }

@@ -214,6 +214,18 @@ export function fluidAt(spec: FluidSpec, temperatureC: number): Fluid {
 }
 
 /**
+ * The liquid temperatures a fluid's properties are computed for, °C: for water the range of its property
+ * formulations ({@link WATER_RANGE_C}, the one source every form's limit reads); null for a user-defined fluid,
+ * whose properties are taken as given whatever the temperature.
+ * @param spec fluid choice (unitless descriptor: only its kind is read)
+ */
+export function fluidTemperatureRangeC(spec: { kind: FluidSpec["kind"] }): { min: number; max: number } | null {
+  if (spec?.kind === "water") return { min: WATER_RANGE_C.min, max: WATER_RANGE_C.max };
+  if (spec?.kind === "custom") return null;
+  throw new EngineInputError("spec.kind", "must be 'water' or 'custom'");
+}
+
+/**
  * Builds a user-defined fluid.
  * @param name display name (unitless text)
  * @param density density, kg/m³

@@ -19,6 +19,7 @@ export * from "./multiple.ts";
 export * from "./figures.ts";
 export * from "./fieldCheck.ts";
 export * from "./gradeUncertainty.ts";
+export * from "./gradePower.ts";
 export * from "./verdict.ts";
 export * from "./motor.ts";
 export * from "./lifeCycleCost.ts";

@@ -214,6 +214,10 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     withinGrade: [[(x) => E.withinGrade(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.withinGrade(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
     gradeCross: [[(x) => E.gradeCross(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.gradeCross(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
     fieldCheck: [[(x) => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: x }), 0.01, [-1]]],
+    gradePower: [[(x) => E.gradePower(curve, x, 20, 998, 3000, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.gradePower(curve, 0.01, x, 998, 3000, E.TOLERANCE_GRADES[0]), 20, []],
+      [(x) => E.gradePower(curve, 0.01, 20, x, 3000, E.TOLERANCE_GRADES[0]), 998, [0, -1]], [(x) => E.gradePower(curve, 0.01, 20, 998, x, E.TOLERANCE_GRADES[0]), 3000, [0, -1]],
+      [(x) => E.gradePower(curve, 0.01, 20, 998, 3000, { ...E.TOLERANCE_GRADES[0], powerAbove: x }), 0.04, [-0.1, 1.5]],
+      [(x) => E.gradePower(curve, 0.01, 20, 998, 3000, { ...E.TOLERANCE_GRADES[0], efficiencyBelow: x }), 0.03, [-0.1, 1.5]]],
     prepareSearchIndex: [[(x) => E.prepareSearchIndex([{ id: "a", curve: { points: samplePoints(), speed: x } }]).rejected.length === 1 ? (() => { throw new EngineInputError("speed", "rejected"); })() : 0, 2900, [0, -1]]],
     searchDuty: [[(x) => E.searchDuty([{ id: "a", curve }], { flow: x, head: 10 }), 0.01, [0, -1]]],
     joinSearchIndexes: [[(x) => E.joinSearchIndexes([E.prepareSearchIndex([{ id: "a", curve }, { id: "b", curve }])], [[x]]), 1, [-1, 0.5, 2]]],
@@ -274,6 +278,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     unitLabel: () => E.unitLabel("flow", "m3/hr"),
     verdictLabel: () => E.verdictLabel("Meets" as never),
     checkGrade: () => E.checkGrade({ id: "x", flow: [0.05, 1.5], head: [0.03, 0.03] } as never),
+    fluidTemperatureRangeC: () => E.fluidTemperatureRangeC({ kind: "Water" } as never),
   };
   /** Every mode/kind/enum parameter with an unknown value. */
   const enums: [string, () => unknown][] = [
@@ -302,6 +307,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     ["gradeWithinUncertainty grade", () => E.gradeWithinUncertainty(curve, { flow: [0.01, 0.02], head: [15, 25] }, { id: "x" } as never)],
     ["gradeCross grade", () => E.gradeCross(curve, 0.01, 20, { id: "x", flow: [0.1, 2], head: [0, 0.1] } as never)],
     ["fieldCheck grades", () => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: 0.01, grades: [{ id: "x" } as never] })],
+    ["fieldCheck grades powerAbove", () => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: 0.01, grades: [{ ...E.TOLERANCE_GRADES[0], powerAbove: 4 }] })],
     ["motorEfficiency ieClass", () => E.motorEfficiency(7500, "IE5" as never)],
     ["motorEfficiency poles", () => E.motorEfficiency(7500, "IE3", 6 as never)],
     ["dutyCycleEnergy mode", () => E.dutyCycleEnergy(dc({ mode: "vfd" as never }))],

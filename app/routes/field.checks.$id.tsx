@@ -8,7 +8,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { crossOf, crossSentences, gradeRule, inputPowerW, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { crossOf, crossSentences, gradeRule, inputPowerW, powerGradeSentences, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
@@ -90,6 +90,12 @@ export default function FieldCheckRecord() {
             ))}
           </div>
         ) : null}
+        {/* The grade's power and efficiency limits: each with its rule and numbers, or why they were not judged. */}
+        <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-power">
+          {powerGradeSentences(r).map((t, i) => (
+            <p key={i}>{renderUnits(t, sys)}</p>
+          ))}
+        </div>
         <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
           <dt className="text-slate-600">Delivered flow</dt>
           <dd className="font-semibold" data-testid="delivered-flow">

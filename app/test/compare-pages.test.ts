@@ -18,7 +18,7 @@ import * as projectPage from "~/routes/projects.$id";
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const viewerOf = (m: TestMember): Viewer => ({ userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" }, role: m.role });
 const readings = (head: number) => {
-  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.012" }));
+  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.012" }), { kind: "water" });
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return r.readings;
 };
@@ -45,7 +45,7 @@ beforeAll(async () => {
 });
 afterAll(() => closeDb());
 
-type Row = { id: number; verdict: string; flow: number | null; head: number; rule: string; byName: string; createdAt: string };
+type Row = { id: number; verdict: string; flow: number | null; head: number; rule: string; power: string; byName: string; createdAt: string };
 
 describe("field checks on the engineer's selection page", () => {
   test("the selection's checks, newest first, with delivered flow and head, verdict and its rule; none of another selection", async () => {
@@ -58,7 +58,8 @@ describe("field checks on the engineer's selection page", () => {
     expect(rows[1].flow).toBeCloseTo(0.012, 9);
     expect(rows[1].head).toBeCloseTo(28, 6);
     expect(rows[0].head).toBeCloseTo(40, 6);
-    expect(rows[0].rule).toMatch(/^2B: flow −\d+\/\+\d+ %, head −\d+\/\+\d+ % \(ISO 9906/);
+    expect(rows[0].rule).toMatch(/^2B: flow −\d+\/\+\d+ %, head −\d+\/\+\d+ %, power ≤ \+\d+ %, efficiency ≥ −\d+ % of the curve's \(ISO 9906/);
+    expect(rows[0].power).toBe("Power and efficiency were not judged against grade 2B: no power was recorded, so the verdict is on flow and head only."); // our rule: power-grade.ts
     expect(rows[0].byName).toBe("Tester engineer");
   });
 

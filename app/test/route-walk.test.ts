@@ -111,7 +111,7 @@ beforeAll(async () => {
   if (!added.ok) throw new Error(added.reason);
   const selection = await selectCandidate(viewer, added.id, "Walk selection", "");
   const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0]);
-  const parsed = parseCheckFields(fieldsForHead(25, 998.2, { flow: String(20 / 3600) }));
+  const parsed = parseCheckFields(fieldsForHead(25, 998.2, { flow: String(20 / 3600) }), { kind: "water" });
   if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
   const rd = parsed.readings;
   const rec = await recordFieldCheck(viewer, selection, { readings: rd, fields: {}, notes: "", gradeId: "2B" }, [{ filename: "g.png", contentType: "image/png", bytes: Buffer.from(png) }], { notify: false });

@@ -36,7 +36,7 @@ let v: Viewer;
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 /** 28 m at 0.012 m³/s: on the fixture's curve (40 − 1000 × 0.012 = 28 m), so the sound check passes. */
 const FIELDS = fieldsForHead(28, RHO20, { flow: "0.012" });
-const parsed = parseCheckFields(FIELDS);
+const parsed = parseCheckFields(FIELDS, { kind: "water" });
 if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
 
 beforeAll(async () => {

@@ -41,7 +41,7 @@ let projectId = 0;
 const booster = boosterInput;
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const readings = (head: number) => {
-  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.011" }));
+  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.011" }), { kind: "water" });
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return r.readings;
 };

@@ -17,6 +17,7 @@ import {
   POWER_UNITS,
   PRESSURE_UNITS,
   TEMPERATURE_UNITS,
+  temperatureRangeText,
   type CheckFields,
   type FrozenSelection,
 } from "~/lib/fieldchecks";
@@ -72,6 +73,8 @@ export function CheckForm(props: Props) {
     temperature: fields.temperatureUnit || "C",
   });
   const errors = clientErrors ?? serverErrors;
+  // The liquid the selection pumps decides the temperatures the form takes (water: the engine's table range).
+  const liquid = selection.frozen.system.input.fluid;
   const value = (key: string) => fields[key] ?? "";
   const gaugeUnits = { pressure: unitLabel("pressure", units.pressure), elevation: unitLabel("length", units.elevation), diameter: unitLabel("diameter", units.diameter) };
 
@@ -81,7 +84,7 @@ export function CheckForm(props: Props) {
     const data = new FormData(form);
     const raw: Record<string, string> = {};
     for (const [key, entry] of data.entries()) if (typeof entry === "string") raw[key] = entry;
-    const parsed = parseCheckFields(raw);
+    const parsed = parseCheckFields(raw, liquid);
     const found: Record<string, string> = parsed.ok ? {} : { ...parsed.errors };
     if (!gradeById(raw.gradeId ?? "")) found.gradeId = "Choose a tolerance grade from the table.";
     const files = data.getAll("photos").filter((f): f is File => f instanceof File && f.size > 0);
@@ -216,13 +219,21 @@ export function CheckForm(props: Props) {
           <option value="3">three-phase</option>
           <option value="1">single-phase</option>
         </ChoiceSelect>
-        <NumberField name="motorEfficiency" label="Motor efficiency %" unit="%" value={value("motorEfficiency")} errors={errors} optional hint="nameplate; gives pump efficiency" />
+        <NumberField name="motorEfficiency" label="Motor efficiency %" unit="%" value={value("motorEfficiency")} errors={errors} optional hint="nameplate; gives pump efficiency, and without it power and efficiency are not judged against the grade" />
       </fieldset>
 
       <fieldset className="panel space-y-3">
         <legend className="font-semibold">Fluid, grade, notes and photos</legend>
         <UnitSelect name="temperatureUnit" quantity="temperature" units={TEMPERATURE_UNITS} value={value("temperatureUnit")} label="Temperature unit" onChange={(u) => setUnits((s) => ({ ...s, temperature: u }))} />
-        <NumberField name="temperature" label="Fluid temperature" unit={unitLabel("temperature", units.temperature)} value={value("temperature")} errors={errors} last />
+        <NumberField
+          name="temperature"
+          label="Fluid temperature"
+          unit={unitLabel("temperature", units.temperature)}
+          value={value("temperature")}
+          errors={errors}
+          hint={`${temperatureRangeText(liquid, units.temperature)} (${liquid.kind === "water" ? "the range water's properties are computed for" : "user-defined liquid"})`}
+          last
+        />
         <label className="block text-sm">
           <span className="label">Tolerance grade</span>
           <select id={inputId("gradeId")} name="gradeId" defaultValue={value("gradeId") || DEFAULT_GRADE} className={BIG_INPUT}>

@@ -11,7 +11,7 @@ import { fieldsForHead, frozenFixture, linearPoints } from "~/test/fieldcheck-fi
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const readings = (f: Record<string, string>) => {
-  const r = parseCheckFields(f);
+  const r = parseCheckFields(f, { kind: "water" });
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return r.readings;
 };

@@ -22,6 +22,7 @@ import {
 } from "~/engine";
 import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
+import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import type { CheckResult, Pt } from "./result";
 import { fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
@@ -68,9 +69,13 @@ function sample(c: PumpCurve, rho: number) {
  * measured speed; marginal if not, but some point within the reading uncertainty (head ± gauge
  * accuracy, flow ± meter accuracy) is (solved over the whole box: `gradeWithinUncertainty`); fail
  * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade.
+ * Then the grade's power and efficiency limits, where the engine judged them (`e.grades`, from a measured shaft
+ * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say (no power meter
+ * accuracy is recorded, so they have no "at the limit").
  */
 export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number): { verdict: Verdict; within: GradeWitness | null } {
   if (e.flowSource !== "measured" || e.flow === null) return { verdict: "unknown", within: null };
+  if (e.grades.find((g) => g.id === grade.id)?.power?.pass === false) return { verdict: "fail", within: null };
   const q = e.flow;
   const h = e.tdh;
   if (h > 0 && withinGrade(curve, q, h, grade)) return { verdict: "pass", within: null };
@@ -200,7 +205,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const flowMax = Math.max(curve.flowMax, designCurve.flowMax, (q ?? 0) * 1.1, (duty?.flow ?? 0) * 1.2, engine.flowBand?.high ?? 0);
   const result: CheckResult = {
     format: FIELD_CHECK_FORMAT,
-    grade: { id: grade.id, flow: grade.flow, head: grade.head, source: grade.source },
+    grade: { id: grade.id, flow: grade.flow, head: grade.head, powerAbove: grade.powerAbove, efficiencyBelow: grade.efficiencyBelow, source: grade.source },
     verdict,
     verdictText: VERDICT_TEXT[verdict],
     message: engine.message,
@@ -212,6 +217,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     delivered: { flow: q, head: engine.tdh },
     deviation,
     power,
+    powerGrade: powerGradeOf(grade, verdict !== "unknown", readings.power, input, engine.grades.find((g) => g.id === grade.id)?.power ?? null),
     hints: [],
     warnings: [...new Set(warnings)],
     chart: {
@@ -236,5 +242,5 @@ export function deliveredSentence(r: CheckResult): string {
   const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
   const first = q !== null ? `Delivered ${qt("flow", q)} (${src}) at ${qt("head", r.delivered.head)}` : `Measured head ${qt("head", r.delivered.head)}; flow could not be inferred`;
   const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.`;
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}. ${powerGradeSummary(r)}`;
 }

@@ -1,26 +1,62 @@
 // The field-check form's numbers through the forms' strict reader (shared/decimal.ts). Product rules.
 import { describe, expect, it } from "vitest";
-import { fluidAt } from "~/engine";
-import { parseCheckFields } from "./form";
+import { fluidAt, fromSI, WATER_RANGE_C } from "~/engine";
+import { parseCheckFields, temperatureRangeText } from "./form";
 import { fieldsForHead } from "~/test/fieldcheck-fixture";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 
 describe("parseCheckFields: numbers as typed", () => {
   it("refuses 1,500 rpm as ambiguous on its field and says how to write it; 1500 and 1,5 are read", () => {
-    const r = parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1,500" }));
+    const r = parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1,500" }), { kind: "water" });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.errors.rpm).toBe("The speed “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
-    expect(parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1500" })).ok).toBe(true);
-    const comma = parseCheckFields(fieldsForHead(20, RHO20, { sElevation: "0,5" }));
+    expect(parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1500" }), { kind: "water" }).ok).toBe(true);
+    const comma = parseCheckFields(fieldsForHead(20, RHO20, { sElevation: "0,5" }), { kind: "water" });
     expect(comma.ok && comma.readings.suction.elevation).toBe(0.5);
   });
   it("refuses hex and numbers out of range", () => {
-    const r = parseCheckFields(fieldsForHead(20, RHO20, { sDiameter: "0x64", dDiameter: "1e309" }));
+    const r = parseCheckFields(fieldsForHead(20, RHO20, { sDiameter: "0x64", dDiameter: "1e309" }), { kind: "water" });
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.errors.sDiameter).toBe("The suction pipe inner diameter must be a number.");
       expect(r.errors.dDiameter).toMatch(/must be a number: “1e309” is out of range/);
     }
+  });
+});
+
+describe("parseCheckFields: the fluid temperature follows the selection's liquid", () => {
+  // Water: the engine's table range (WATER_RANGE_C, fluids.ts: IAPWS formulations, 0–100 °C) — read from it, not copied.
+  // A user-defined liquid: the form's plausibility bounds, −20 to 200 °C (common practice; its properties do not depend on it).
+  const water = { kind: "water" } as const;
+  const custom = { kind: "custom" } as const;
+  const at = (liquid: { kind: "water" | "custom" }, temperature: number | string, unit = "C") =>
+    parseCheckFields(fieldsForHead(20, RHO20, { temperature: String(temperature), temperatureUnit: unit }), liquid);
+
+  it("water: each end of the engine's range is taken, just past it is refused with the range in the unit typed", () => {
+    expect(at(water, WATER_RANGE_C.min).ok).toBe(true);
+    expect(at(water, WATER_RANGE_C.max).ok).toBe(true);
+    const high = at(water, WATER_RANGE_C.max + 0.1);
+    const low = at(water, WATER_RANGE_C.min - 0.1);
+    expect(high.ok || high.errors.temperature).toBe(
+      "Fluid temperature is too high: the form takes 0 to 100 °C — water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system).",
+    );
+    expect(low.ok || low.errors.temperature).toMatch(/^Fluid temperature is too low: the form takes 0 to 100 °C/);
+    // In °F: 212 °F is 100 °C (taken), 212.5 °F is past it.
+    expect(at(water, fromSI("temperature", "F", WATER_RANGE_C.max), "F").ok).toBe(true);
+    const f = at(water, 212.5, "F");
+    expect(f.ok || f.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes 32 to 212 °F/);
+  });
+
+  it("a user-defined liquid takes 150 °C (past water's range) and refuses 201 °C", () => {
+    expect(at(custom, 150).ok).toBe(true);
+    const r = at(custom, 201);
+    expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C — the form's plausibility bounds for a user-defined liquid/);
+  });
+
+  it("the field's hint says the same range in the unit chosen", () => {
+    expect(temperatureRangeText(water, "C")).toBe("0 to 100 °C");
+    expect(temperatureRangeText(water, "F")).toBe("32 to 212 °F");
+    expect(temperatureRangeText(custom, "C")).toBe("−20 to 200 °C");
   });
 });

@@ -1,7 +1,7 @@
 // The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
-import { fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
+import { fluidTemperatureRangeC, fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
 import { fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
 import type { UnitChoice } from "../shared/units";
@@ -14,10 +14,16 @@ export const MAX_PHOTOS = 6;
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 export type Verdict = "pass" | "marginal" | "fail" | "unknown";
 
-/** A grade's rule in words, e.g. "2B: flow −8/+8 %, head −5/+5 % (ISO 9906:2012 …)"; `withSource: false` leaves the source off (the form's select). */
-export function gradeRule(g: ToleranceGrade, { withSource = true } = {}): string {
+/**
+ * A grade's rule in words, e.g. "2B: flow −8/+8 %, head −5/+5 %, power ≤ +8 %, efficiency ≥ −5 % of the curve's (ISO 9906:2012 …)";
+ * `withSource: false` leaves the source off (the form's select). A grade stored before its power and efficiency limits were
+ * judged has none, and its rule names flow and head only.
+ */
+export function gradeRule(g: Pick<ToleranceGrade, "id" | "flow" | "head" | "powerAbove" | "efficiencyBelow" | "source">, { withSource = true } = {}): string {
   const pct = (x: number) => fmtPctLimit(x).replace(" %", ""); // a limit as typed (2.5, not 3), the unit once at the end
-  return `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} %${withSource ? ` (${g.source})` : ""}`;
+  const power = g.powerAbove !== undefined ? `, power ≤ +${pct(g.powerAbove)} %` : "";
+  const eff = g.efficiencyBelow === undefined ? "" : g.efficiencyBelow === 0 ? ", efficiency ≥ the curve's" : `, efficiency ≥ −${pct(g.efficiencyBelow)} % of the curve's`;
+  return `${g.id}: flow −${pct(g.flow[0])}/+${pct(g.flow[1])} %, head −${pct(g.head[0])}/+${pct(g.head[1])} %${power}${eff}${withSource ? ` (${g.source})` : ""}`;
 }
 
 /** Words for the verdicts, the same on the form, the record, the list, the CSV and the e-mail. */
@@ -127,13 +133,46 @@ export function blankFields(u: UnitChoice, known: { suction?: number | null; dis
 
 export type ParseResult = { ok: true; readings: Readings; notes: string; fields: CheckFields } | { ok: false; errors: Record<string, string>; fields: CheckFields };
 
+/** The liquid the selection pumps (its system's `fluid`): only its kind decides the temperatures the form takes. */
+export type LiquidKind = { kind: "water" | "custom" };
+
+/** Temperatures taken for a user-defined liquid, °C: plausibility bounds (common practice); its properties do not depend on it. */
+const CUSTOM_LIQUID_C = { min: -20, max: 200 } as const;
+
+/**
+ * The fluid temperatures the form takes, °C. Water: the range its properties are computed for, read from the engine's
+ * fluid table (`fluidTemperatureRangeC`, fluids.ts — one source), so a reading the check could not work out is refused
+ * at its field, not answered 422 after the fact. A user-defined liquid: plausibility bounds.
+ * @param liquid the selection's liquid (its kind)
+ */
+export function temperatureLimitsC(liquid: LiquidKind): { min: number; max: number; rule: string } {
+  const table = fluidTemperatureRangeC(liquid);
+  return table
+    ? { ...table, rule: "water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system)" }
+    : { ...CUSTOM_LIQUID_C, rule: "the form's plausibility bounds for a user-defined liquid (its properties are taken as given)" };
+}
+
+/**
+ * The form's temperature limits in a unit, e.g. "0 to 100 °C" or "32 to 212 °F": the field's hint and its message.
+ * @param liquid the selection's liquid (its kind)
+ * @param unit temperature unit id (°C, °F)
+ */
+export function temperatureRangeText(liquid: LiquidKind, unit: string): string {
+  const { min, max } = temperatureLimitsC(liquid);
+  const show = (c: number) => String(Number(fromSI("temperature", unit, c).toFixed(2))).replace("-", "−");
+  return `${show(min)} to ${show(max)} ${unitLabel("temperature", unit)}`;
+}
+
 const MAX_NOTES = 4000;
 
 /**
  * Reads the raw form into SI readings, with a message per bad field. Limits are plausibility
- * bounds for building-services and water pumps (common practice), not physics.
+ * bounds for building-services and water pumps (common practice), not physics — except the fluid
+ * temperature, which follows the liquid the selection pumps (`temperatureLimitsC`).
+ * @param raw the form's fields as posted
+ * @param liquid the selection's liquid (its system's `fluid`)
  */
-export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
+export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKind): ParseResult {
   const f: CheckFields = {};
   for (const [k, v] of Object.entries(raw)) if (typeof v === "string") f[k] = v.trim();
   const errors: Record<string, string> = {};
@@ -216,7 +255,12 @@ export function parseCheckFields(raw: Record<string, unknown>): ParseResult {
     if (volts !== null && amps !== null && powerFactor !== null) power = { mode: "electrical", volts, amps, powerFactor, phases: phases === "1" ? 1 : 3, motorEfficiency };
   }
 
-  const temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit, { min: -20, max: 200 });
+  let temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit);
+  const tLimits = temperatureLimitsC(liquid);
+  if (temperatureC !== null && (temperatureC < tLimits.min || temperatureC > tLimits.max)) {
+    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)} — ${tLimits.rule}.`;
+    temperatureC = null;
+  }
   const notes = f.notes ?? "";
   if (notes.length > MAX_NOTES) errors.notes = `Keep the notes under ${MAX_NOTES} characters.`;
   if (Object.keys(errors).length || !suction || !discharge || temperatureC === null) return { ok: false, errors, fields: f };

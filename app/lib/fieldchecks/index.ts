@@ -17,14 +17,18 @@ export {
   PRESSURE_UNITS,
   speedRpm,
   TEMPERATURE_UNITS,
+  temperatureLimitsC,
+  temperatureRangeText,
   VERDICT_TEXT,
   gradeRule,
   type CheckFields,
   type GaugeRef,
+  type LiquidKind,
   type ParseResult,
   type Readings,
   type Verdict,
 } from "./form";
 export type { CheckResult, Pt } from "./result";
 export { crossOf, crossSentences, type CrossArm } from "./cross";
+export { powerGradeOf, powerGradeSentences, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";

@@ -15,7 +15,7 @@ const H = (q: number) => evalCubic(createPumpCurve({ points: points.map(({ flow,
 const q = 1.5 * M3H; // H = 3.00 m here (a knot)
 
 function check(head: number, gaugeKPa: string) {
-  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: String(q), sAccuracy: gaugeKPa, dAccuracy: gaugeKPa, gradeId: "1B" }));
+  const r = parseCheckFields(fieldsForHead(head, RHO20, { flow: String(q), sAccuracy: gaugeKPa, dAccuracy: gaugeKPa, gradeId: "1B" }), { kind: "water" });
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return evaluateCheck(f, r.readings, "1B");
 }

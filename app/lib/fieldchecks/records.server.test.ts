@@ -21,7 +21,7 @@ import type { Viewer } from "../libraries";
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 
 function readingsFromFields(f: Record<string, string>): Readings {
-  const r = parseCheckFields(f);
+  const r = parseCheckFields(f, { kind: "water" });
   if (!r.ok) throw new Error(`fixture fields invalid: ${JSON.stringify(r.errors)}`);
   return r.readings;
 }
@@ -176,7 +176,7 @@ describe("no flow meter: flow inferred with a band", () => {
 
 describe("form codec", () => {
   test("names the bad fields", () => {
-    const r = parseCheckFields({ ...fieldsForHead(20, RHO20), sPressure: "", dPressure: "abc", sDiameter: "0.1", temperature: "900" });
+    const r = parseCheckFields({ ...fieldsForHead(20, RHO20), sPressure: "", dPressure: "abc", sDiameter: "0.1", temperature: "900" }, { kind: "water" });
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.errors.sPressure).toMatch(/Enter/);
@@ -186,8 +186,8 @@ describe("form codec", () => {
     }
   });
   test("an absolute gauge cannot read below zero; a gauge reading can (vacuum)", () => {
-    expect(parseCheckFields({ ...fieldsForHead(20, RHO20), sRef: "absolute", sPressure: "-5" }).ok).toBe(false);
-    expect(parseCheckFields({ ...fieldsForHead(20, RHO20), sPressure: "-30" }).ok).toBe(true);
+    expect(parseCheckFields({ ...fieldsForHead(20, RHO20), sRef: "absolute", sPressure: "-5" }, { kind: "water" }).ok).toBe(false);
+    expect(parseCheckFields({ ...fieldsForHead(20, RHO20), sPressure: "-30" }, { kind: "water" }).ok).toBe(true);
   });
 });
 

@@ -255,8 +255,14 @@ function isDuplicateKey(e: unknown): boolean {
  * check is recorded exactly once: a retry (even one racing the first) answers the first check
  * with `duplicate: true`, no second row, no second e-mail.
  */
-export async function recordFieldCheck(viewer: Viewer, selectionId: number, input: NewCheck, photos: PhotoIn[] = [], opts: { notify?: boolean } = {}) {
-  const sel = await fieldSelection(viewer, selectionId);
+export async function recordFieldCheck(
+  viewer: Viewer,
+  selectionId: number,
+  input: NewCheck,
+  photos: PhotoIn[] = [],
+  opts: { notify?: boolean; /** The selection as `fieldSelection` read it for this viewer (the form read it first). */ selection?: Awaited<ReturnType<typeof fieldSelection>> } = {},
+) {
+  const sel = opts.selection?.id === selectionId ? opts.selection : await fieldSelection(viewer, selectionId);
   const clientId = input.clientId ?? null;
   if (clientId !== null && !CLIENT_ID.test(clientId)) throw data("The check id made on the device is not valid.", { status: 400 });
   if (clientId !== null) {

@@ -2,12 +2,14 @@
 // evaluate.ts, recorded by records.server.ts): a plain type shared by the server and the components that show it.
 import type { FieldCheckResult } from "~/engine";
 import type { Verdict } from "./form";
+import type { PowerGrade } from "./power-grade";
 
 export type Pt = { flow: number; y: number };
 
 export type CheckResult = {
   format: string;
-  grade: { id: string; flow: readonly [number, number]; head: readonly [number, number]; source: string };
+  /** The grade judged; `powerAbove` and `efficiencyBelow` are missing from results recorded before they were judged. */
+  grade: { id: string; flow: readonly [number, number]; head: readonly [number, number]; powerAbove?: number; efficiencyBelow?: number; source: string };
   verdict: Verdict;
   verdictText: string;
   message: string;
@@ -23,6 +25,8 @@ export type CheckResult = {
   /** Fractions: measured vs the rescaled curve and vs the design duty. */
   deviation: { curveFlow: number | null; curveHead: number | null; dutyFlow: number | null; dutyHead: number | null };
   power: { input: number | null; hydraulic: number | null; overall: number | null; shaft: number | null; pump: number | null; curve: number | null } | null;
+  /** The grade's power and efficiency limits: judged, or why not. Missing from results recorded before they were judged (read as "not judged"). */
+  powerGrade?: PowerGrade;
   hints: string[];
   warnings: string[];
   chart: { selected: Pt[]; measured: Pt[]; selectedEff: Pt[]; measuredEff: Pt[]; system: Pt[] | null; flowMax: number; band: { low: number | null; high: number | null } | null; selectedLabel: string; measuredLabel: string };

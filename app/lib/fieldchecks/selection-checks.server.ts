@@ -6,6 +6,7 @@
 import type { getSelection } from "../projects/selections.server";
 import { checksOf } from "./records.server";
 import { gradeRule } from "./form";
+import { powerGradeSummary } from "./power-grade";
 import { unreadableCheckText } from "./stored-check";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
@@ -20,6 +21,8 @@ export async function checksOfSelection(selection: Awaited<ReturnType<typeof get
       flowSource: c.result.engine.flowSource,
       verdict: c.verdict,
       rule: gradeRule(c.result.grade),
+      /** The grade's power and efficiency limits: met or not with their numbers, or why not judged. */
+      power: powerGradeSummary(c.result),
     };
   });
 }

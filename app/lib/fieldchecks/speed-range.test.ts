@@ -16,7 +16,7 @@ const f = frozenFixture();
 function atSpeed(rpm: number, extra: Record<string, string> = {}) {
   const r = rpm / 2900;
   const fields = fieldsForHead(28 * r * r, RHO20, { flow: String(0.012 * r), rpm: String(rpm), gradeId: "2B", ...extra });
-  const p = parseCheckFields(fields);
+  const p = parseCheckFields(fields, { kind: "water" });
   if (!p.ok) throw new Error(JSON.stringify(p.errors));
   return evaluateCheck(f, p.readings, "2B");
 }

@@ -6,12 +6,12 @@ import { describe, expect, test } from "vitest";
 import { fluidAt, TOLERANCE_GRADES } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateSystem } from "~/lib/projects/hydraulics";
 import { fieldsForHead, frozenFixture } from "~/test/fieldcheck-fixture";
-import { evaluateCheck, parseCheckFields, type CheckFields, type Readings } from "./index";
+import { evaluateCheck, gradeRule, parseCheckFields, powerGradeSentences, type CheckFields, type Readings } from "./index";
 import { readStoredCheck, unreadableCheckText } from "./stored-check";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const read = (fields: Record<string, string>) => {
-  const r = parseCheckFields(fields);
+  const r = parseCheckFields(fields, { kind: "water" });
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
   return r;
 };
@@ -58,6 +58,26 @@ test("every check the app works out reads back as stored (4 selections × 11 rea
     n++;
   }
   expect(n).toBe(selections.length * readings.length + TOLERANCE_GRADES.length);
+});
+
+test("a result stored before power and efficiency were judged (no grade allowances, no powerGrade) still reads, and says they were not judged", () => {
+  // The shape recorded before this change: grade { id, flow, head, source } and no powerGrade (rule: stored-check.ts, optional keys).
+  const r = read(fieldsForHead(28, RHO20, { flow: "0.012", powerMode: "input", power: "5", motorEfficiency: "90" }));
+  const now = evaluateCheck(frozenFixture(), r.readings, "2B");
+  expect(now.powerGrade?.check).not.toBeNull(); // control: this check judges power now
+  const { powerGrade: _pg, ...rest } = now;
+  const old = { ...rest, grade: { id: now.grade.id, flow: now.grade.flow, head: now.grade.head, source: now.grade.source } };
+  const got = readStoredCheck(stored(r.readings, r.fields, old));
+  expect(got.ok ? [] : got.problems).toEqual([]);
+  if (!got.ok) return;
+  expect(got.result.powerGrade).toBeUndefined();
+  expect(powerGradeSentences(got.result)).toEqual([
+    "Power and efficiency were not judged against grade 2B: this check was recorded before a grade's power and efficiency limits were judged, so its verdict is on flow and head only.",
+  ]);
+  expect(gradeRule(got.result.grade, { withSource: false })).toBe("2B: flow −8/+8 %, head −5/+5 %"); // ISO 9906:2012 2B from memory (TOLERANCE_GRADES)
+  // A damaged judgement is named like any other part (rule: stored-check.ts PowerGrade).
+  const bad = readStoredCheck(stored(r.readings, r.fields, { ...now, powerGrade: { ...now.powerGrade, check: { ...now.powerGrade!.check, pass: "yes" } } }));
+  expect(bad.ok ? [] : bad.problems.map((p) => p.label)).toEqual(["result, power and efficiency against the grade, judgement, met"]);
 });
 
 describe("a damaged stored check is named, never read as numbers", () => {

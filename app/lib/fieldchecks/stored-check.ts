@@ -48,10 +48,23 @@ const Engine = obj({
   flowBand: v.nullable(obj({ low: numOrNull, high: numOrNull, headUncertainty: num })),
 });
 
-/** field_checks.result_json: the check as worked out when it was recorded (evaluate.ts), as its readers read it. */
+/** One of a grade's power or efficiency limits as judged (engine gradePower.ts). */
+const Limit = obj({ measured: num, curve: numOrNull, deviation: numOrNull, allowed: fraction, pass: v.nullable(v.boolean()) });
+/** The grade's power and efficiency limits (power-grade.ts): judged, or why not. */
+const PowerGrade = obj({
+  notJudged: v.nullable(str),
+  basis: v.nullable(obj({ input: num, motorEfficiency: num })),
+  check: v.nullable(obj({ power: v.nullable(Limit), efficiency: v.nullable(Limit), pass: v.nullable(v.boolean()) })),
+});
+
+/**
+ * field_checks.result_json: the check as worked out when it was recorded (evaluate.ts), as its readers read it. The grade's
+ * `powerAbove`/`efficiencyBelow` and `powerGrade` are optional: results recorded before power and efficiency were judged
+ * lack them and still read (their page says power and efficiency were not judged).
+ */
 export const CheckResultSchema = obj({
   format: str,
-  grade: obj({ id: str, flow: v.tuple([fraction, fraction]), head: v.tuple([fraction, fraction]), source: str }),
+  grade: obj({ id: str, flow: v.tuple([fraction, fraction]), head: v.tuple([fraction, fraction]), powerAbove: v.optional(fraction), efficiencyBelow: v.optional(fraction), source: str }),
   verdict: v.picklist(["pass", "marginal", "fail", "unknown"]),
   verdictText: str,
   message: str,
@@ -63,6 +76,7 @@ export const CheckResultSchema = obj({
   delivered: obj({ flow: numOrNull, head: num }),
   deviation: obj({ curveFlow: numOrNull, curveHead: numOrNull, dutyFlow: numOrNull, dutyHead: numOrNull }),
   power: v.nullable(obj({ input: numOrNull, hydraulic: numOrNull, overall: numOrNull, shaft: numOrNull, pump: numOrNull, curve: numOrNull })),
+  powerGrade: v.optional(PowerGrade),
   hints: v.array(str),
   warnings: v.array(str),
   chart: obj({
@@ -94,7 +108,9 @@ const RESULT_WORDS: DocWords = {
     low: "low end", high: "high end", headUncertainty: "head uncertainty", fluid: "fluid", name: "name", density: "density", speed: "speed", rated: "curve's rated speed",
     design: "design speed", measured: "measured", rescaled: "rescaled", gauges: "gauges as used", suction: "suction", discharge: "discharge", duty: "design duty",
     delivered: "delivered point", head: "head", deviation: "deviations", curveFlow: "flow from the curve", dutyFlow: "flow from the duty", dutyHead: "head from the duty",
-    power: "power", input: "input power", hydraulic: "hydraulic power", overall: "overall efficiency", shaft: "shaft power", pump: "pump efficiency", curve: "curve efficiency",
+    power: "power", input: "input power", hydraulic: "hydraulic power", overall: "overall efficiency", shaft: "shaft power", pump: "pump efficiency", curve: "the curve's value at the measured flow",
+    powerAbove: "power allowance", efficiencyBelow: "efficiency allowance", powerGrade: "power and efficiency against the grade", notJudged: "why not judged",
+    basis: "shaft power from", motorEfficiency: "motor efficiency", check: "judgement", efficiency: "efficiency", allowed: "allowance", pass: "met",
     hints: "hints", warnings: "notes on the working", chart: "chart", flowMax: "flow range", band: "flow band", selectedLabel: "label of the curve as selected", measuredLabel: "label of the curve compared",
   },
   items: {

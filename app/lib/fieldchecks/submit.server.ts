@@ -6,7 +6,7 @@ import type { Viewer } from "../libraries";
 import { gradeById } from "./evaluate";
 import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";
-import { CheckConflict, CLIENT_ID, recordFieldCheck } from "./records.server";
+import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
 
 /** Form fields that say how to record, not what was read (never stored among the readings). */
 const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos"] as const;
@@ -20,7 +20,9 @@ export type SubmitOutcome =
 export async function submitCheckForm(viewer: Viewer, selectionId: number, form: FormData): Promise<SubmitOutcome> {
   const raw: Record<string, string> = {};
   for (const [key, value] of form.entries()) if (typeof value === "string") raw[key] = value;
-  const parsed = parseCheckFields(raw);
+  // The selection first: the liquid it pumps decides the temperatures the form takes (read once, handed on).
+  const selection = await fieldSelection(viewer, selectionId);
+  const parsed = parseCheckFields(raw, selection.frozen.system.input.fluid);
   const fields: CheckFields = { ...parsed.fields };
   delete fields.photos;
   const errors: Record<string, string> = parsed.ok ? {} : { ...parsed.errors };
@@ -40,6 +42,7 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
       selectionId,
       { readings: parsed.readings, fields: readingFields, notes: parsed.notes, gradeId: gradeId!, amends, clientId, basedOn: raw.basedOn || null },
       photos,
+      { selection },
     );
     return { ok: true, id: recorded.id, duplicate: recorded.duplicate };
   } catch (e) {

@@ -127,4 +127,15 @@ describe("field checks sent from the phone's queue", () => {
     expect((res.body as { errors: Record<string, string> }).errors.dPressure).toMatch(/must be a number/);
     expect(await db().select().from(fieldChecks).where(and(eq(fieldChecks.clientId, clientId)))).toHaveLength(0);
   });
+
+  test("a water temperature outside the engine's fluid table is refused at its field (400, the range in the unit typed), not 422 after the fact", async () => {
+    // The limits are the engine's WATER_RANGE_C (0–100 °C, IAPWS formulations); the selection pumps water (fixture).
+    const clientId = crypto.randomUUID();
+    const res = await send(clientId, { temperature: "150", basedOn: "" });
+    expect(res.status).toBe(400);
+    expect((res.body as { errors: Record<string, string> }).errors.temperature).toMatch(/^Fluid temperature is too high: the form takes 0 to 100 °C — water's properties/);
+    const inF = await send(clientId, { temperatureUnit: "F", temperature: "213", basedOn: "" }); // 213 °F = 100.6 °C
+    expect((inF.body as { errors: Record<string, string> }).errors.temperature).toMatch(/the form takes 32 to 212 °F/);
+    expect(await rowsOf(clientId)).toHaveLength(0);
+  });
 });
