@@ -7,7 +7,7 @@ import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/librarie
 import { getUploadMeta } from "~/lib/libraries/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
-import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, headerPowerKind, headerUnitRefusal, NUMERIC_FIELDS, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
+import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, headerPowerKind, headerUnitRefusal, NUMERIC_FIELDS, powerKindNote, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
 import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
@@ -218,8 +218,9 @@ export default function UploadPreview() {
               const numeric = (NUMERIC_FIELDS as readonly string[]).includes(c.field);
               // A header naming a unit the field does not take (kPa for head, Hz for speed): no unit is offered, the user picks one.
               const ask = numeric && unitToChoose(c) ? headerUnitRefusal(c.header, c.field) : null;
-              // A header naming the motor's electrical input power (P1) or the hydraulic power: never the shaft power the field means.
+              // A header naming a power that is not shaft power (P1, hydraulic, per-unit) or one with two readings (P_w, Förderleistung).
               const notShaft = c.field === "ignore" || c.field === "power" ? headerPowerKind(c.header) : null;
+              const notShaftNote = notShaft ? powerKindNote(notShaft, c.field) : null;
               return (
                 <tr key={c.index} className="border-t border-slate-100">
                   <td className="py-1 font-semibold">{c.header || `column ${c.index + 1}`}</td>
@@ -228,9 +229,9 @@ export default function UploadPreview() {
                     <select name={`field.${c.index}`} defaultValue={c.field} className="field w-auto py-0.5" aria-label={`Meaning of ${c.header}`}>
                       <Options values={FIELDS} label={(f) => FIELD_LABEL[f]} />
                     </select>
-                    {notShaft ? (
+                    {notShaft && notShaftNote ? (
                       <span className="ml-1 text-xs text-duty-ink" data-testid={`${notShaft}-power`}>
-                        {`${notShaft === "input" ? "electrical input power (P1)" : "hydraulic power (ρ·g·Q·H)"}, not the shaft power (P2) the importer reads: ${c.field === "ignore" ? "left out" : "see the problems below"}`}
+                        {notShaftNote}
                       </span>
                     ) : null}
                   </td>

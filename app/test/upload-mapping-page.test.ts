@@ -69,3 +69,23 @@ describe("mapping page: a column of hydraulic power", () => {
     expect(html).toContain("worked out from the pump efficiency column “Eff %” instead"); // source: notShaftPowerMessage (HYDRAULIC_POWER)
   });
 });
+
+// Header words the importer does not read as shaft power, beside their column (review of 2026-12-03): P_w (water power or
+// watts?) and Förderleistung (flow or useful power?) are left out until the user chooses; p.u. is a ratio; a motor's output
+// is shaft power (definition). The rows' notes come from powerKindNote (power-kinds.ts).
+describe("mapping page: P_w, Förderleistung, p.u. and a motor's output", () => {
+  const html = render("Model,Speed rpm,Flow m3/h,Head m,P_w,Förderleistung,P.U.,Motor output kW\nA,2900,0,20,0,0,0.5,1.0\nA,2900,10,19,517,0.5,0.8,1.2\nA,2900,20,17,925,0.9,1.0,1.4\n");
+  it("“P_w” is left out until the user chooses, and the row names both readings", () => {
+    expect(selected(selectOf(html, "Meaning of P_w"))).toBe("ignore"); // source: ambiguous-power.ts
+    expect(html).toMatch(/data-testid="water-or-watts-power">“P_w”: the water \(hydraulic\) power, or a power in W\? Left out until you choose</); // source: importer rule
+  });
+  it("“Förderleistung” is left out until the user chooses, and the row names both readings", () => {
+    expect(selected(selectOf(html, "Meaning of Förderleistung"))).toBe("ignore"); // source: ambiguous-power.ts
+    expect(html).toContain('data-testid="flow-or-hydraulic-power">“Förderleistung”: the flow, or the useful (hydraulic) power?'); // source: importer rule
+  });
+  it("“P.U.” is left out as a ratio, and “Motor output kW” is the shaft power", () => {
+    expect(selected(selectOf(html, "Meaning of P.U."))).toBe("ignore"); // source: per-unit.ts
+    expect(html).toMatch(/data-testid="per-unit-power">a per-unit \(p\.u\.\) ratio, not a power in kW, W or hp: (?:<!-- -->)?left out/); // source: importer rule
+    expect(selected(selectOf(html, "Meaning of Motor output kW"))).toBe("power"); // source: definition (a motor's output is its shaft power, P2)
+  });
+});

@@ -9,6 +9,7 @@ import { fastLongValidate } from "./fast";
 import { normaliseNewlines, parseRows, stripBom, isBlankRow, type ParseIssue, type SourceRow } from "./parse";
 import { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 import { sniffCsv, type SniffResult } from "./sniff";
+import { unknownUnitProblems } from "./units-row";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
 
@@ -59,7 +60,7 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const title = readTitle(body, sniff);
   const suggestedMapping = withTitleDefaults(suggestMapping(sniff.headers, sample, sniff.decimalComma), title);
   const used = given ?? suggestedMapping;
-  const structural = checkMapping(used, sniff.headers, headerLine);
+  const structural = [...checkMapping(used, sniff.headers, headerLine), ...unknownUnitProblems(sniff, used)];
   const vopts = { decimalComma: sniff.decimalComma, headerLine, policy: used.policy };
 
   let allRows: SourceRow[] | null = null;
@@ -113,6 +114,8 @@ export {
   headerUnitRefusal, refusalMessage, headerNamesInputPower, headerPowerKind,
   type Field, type PowerKind, type NumericField, type TextField, type Unit, type UnitRefusal,
 } from "./units-in-headers";
+export { powerKindNote, powerKindMessage } from "./power-kinds";
+export { isUnitCell, unitsRowOf, type UnitsRow } from "./units-row";
 export { parseNumber } from "./numbers";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";

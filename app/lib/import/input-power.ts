@@ -6,7 +6,8 @@
  * unmapped ("ignore") and checkMapping says why (notShaftPowerMessage with INPUT_POWER).
  * Pump data sheets write P1 for the electrical input and P2 for the shaft power (common practice);
  * "absorbed power" / "power absorbed" alone is the pump's shaft power there (common practice), unless the
- * header also says electrical. Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
+ * header also says electrical; so is a motor's output ("Motor output kW": what the motor's shaft gives the pump's).
+ * Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
  */
 
 /** "P1", "P 1", "P₁" (NFKC folds the subscript): the electrical input in pump data sheets. */
@@ -16,6 +17,16 @@ const SHAFT = /\bp\s*-?\s*2\b|shaft|\bbrake\b|\bbhp\b|\bbkw\b|welle|\barbre\b/;
 /** Words that name the electrical side: electrical, "el.", kWel, kWe, Pel, wire, mains, supply, consumption, drawn, motor. */
 const ELECTRICAL =
   /\belec|elektr|électr|\bel\b|\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b|\bwire\b|\bmains\b|\bsupply\b|\bgrid\b|consum|verbrauch|consommation|\bdrawn?\b|\bmot(?:or|eur)|\bmot\b/;
+/**
+ * A motor's output: the power its shaft gives the pump's shaft, which is the pump's shaft power (P2, definition): "Motor output kW",
+ * "motor output power", "Motor power output", "Output of motor", "Motorabgabeleistung", "Puissance utile moteur" (from memory).
+ * Not a rated or nominal output ("Rated motor output", "Nennleistung Motor"): that is the motor's size, one figure for every
+ * point rather than the power at each (common practice), and stays with the motor words of ELECTRICAL, as before.
+ */
+const MOTOR_OUTPUT = /\bmot(?:or|eur)?\b.*\b(?:output|utile)\b|\b(?:output|utile)\b.*\bmot(?:or|eur)?\b|\bmotor\s*-?\s*abgabe|abgabeleistung.*\bmot(?:or|eur)?\b/;
+const RATED = /\brated\b|\bnominal|\bnameplate\b|\bnenn|\bbemessung/;
+/** P2, shaft or brake words, or a motor's (not rated) output. */
+const namesShaft = (norm: string) => SHAFT.test(norm) || (MOTOR_OUTPUT.test(norm) && !RATED.test(norm));
 /** The pump's own power input (the power its driver transmits to it: shaft power, ISO 9906 wording, from memory). */
 const PUMP_INPUT = /\bpump\s+(?:power\s+)?input\b|\binput\s+(?:power\s+)?(?:to|of)\s+(?:the\s+)?pump\b/;
 /** "input" in English, German (Eingangsleistung, Leistungsaufnahme) and French (puissance d'entrée). */
@@ -26,16 +37,16 @@ export const ELECTRICAL_POWER_WORD = /\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b/;
 
 /** True when a power header (already normalised) names P1, P2/shaft/brake or the electrical side: then it names no hydraulic power. */
 export function namesShaftOrElectrical(norm: string): boolean {
-  return P1.test(norm) || SHAFT.test(norm) || ELECTRICAL.test(norm);
+  return P1.test(norm) || namesShaft(norm) || ELECTRICAL.test(norm);
 }
 
 /**
  * True when a power header (already normalised) names the electrical input power rather than shaft power.
- * P1 decides first; then P2/shaft/brake words; then electrical words; then the pump's own power input; then "input".
+ * P1 decides first; then P2/shaft/brake words and a motor's output; then electrical words; then the pump's own power input; then "input".
  */
 export function namesInputPower(norm: string): boolean {
   if (P1.test(norm)) return true;
-  if (SHAFT.test(norm)) return false;
+  if (namesShaft(norm)) return false;
   if (ELECTRICAL.test(norm)) return true;
   if (PUMP_INPUT.test(norm)) return false;
   return INPUT.test(norm);
@@ -51,6 +62,8 @@ export type NotShaftPower = {
   values: string;
   /** Why P2 taken from it is wrong, with the numbers. */
   why: string;
+  /** What the mapping page says beside the column (before ": left out" or ": see the problems below"). */
+  note: string;
 };
 
 /**
@@ -75,6 +88,7 @@ export const INPUT_POWER: NotShaftPower = {
   names: "the motor's electrical input power (P1)",
   leftOut: "",
   values: "P1",
+  note: "electrical input power (P1), not the shaft power (P2) the importer reads",
   why:
     "Dutymark's power is the pump's shaft power (P2), and P2 = P1 × motor efficiency (× drive efficiency): P1 read as P2 overstates it " +
     "(a small wet-rotor circulator's P1 can be about twice its P2), so efficiencies worked out from it come out too low and the motor is sized too large",

@@ -7,8 +7,7 @@ import * as v from "valibot";
 import { parseNumber } from "./numbers";
 import type { SourceRow } from "./parse";
 import type { Problem } from "./types";
-import { INPUT_POWER, notShaftPowerMessage } from "./input-power";
-import { HYDRAULIC_POWER } from "./hydraulic-power";
+import { powerKindMessage } from "./power-kinds";
 import {
   DIAMETER_UNITS,
   EFFICIENCY_UNITS,
@@ -157,8 +156,8 @@ export function suggestMapping(headers: string[], sample: SourceRow[], decimalCo
     if (textCol) textCol.field = "model";
   }
 
-  // One column per field; later repeats are left for the user (ignored). A P1 (electrical input) column is never
-  // guessed as power (input-power.ts), so a P2 column is the power column wherever it stands.
+  // One column per field; later repeats are left for the user (ignored). A P1 (electrical input) column, or any other
+  // power that is not shaft power, is never guessed as power (power-kinds.ts), so a P2 column is the power column wherever it stands.
   // Columns of wide blocks are kept as they are: two blocks with the same qualifier are shown to the
   // user by checkMapping rather than silently dropped.
   const seen = new Map<string, MappedColumn>();
@@ -247,14 +246,18 @@ export function checkMapping(mapping: Mapping, headers: string[], headerLine: nu
     if (refused) p(refusalMessage(h, refused), h);
   }
   const used = mapping.columns.filter((c) => c.field !== "ignore" && c.field !== "notes");
-  // A header naming the motor's electrical input power (P1) or the hydraulic power is not shaft power: say so when it is
-  // mapped to power, and when it was left out of a file that then has no power column (with or without a pump efficiency column).
-  const efficiency = used.find((c) => c.field === "efficiency")?.header ?? null;
-  const hasPower = used.some((c) => c.field === "power");
+  // A header naming a power that is not shaft power (P1, hydraulic, per-unit) or one with two readings (P_w, Förderleistung):
+  // say so when it is mapped to power, and when it was left out of a file that then lacks what it may hold (power-kinds.ts).
+  const mapped = {
+    efficiency: used.find((c) => c.field === "efficiency")?.header ?? null,
+    hasPower: used.some((c) => c.field === "power"),
+    hasFlow: used.some((c) => c.field === "flow"),
+  };
   headers.forEach((h, i) => {
     const field = mapping.columns.find((c) => c.index === i)?.field ?? "ignore"; // a column a mapping leaves out is unmapped
-    const kind = field === "power" || (field === "ignore" && !hasPower) ? headerPowerKind(h) : null;
-    if (kind) p(notShaftPowerMessage(kind === "input" ? INPUT_POWER : HYDRAULIC_POWER, h, field === "power", efficiency), h, "warning");
+    const kind = field === "power" || field === "ignore" ? headerPowerKind(h) : null;
+    const say = kind && powerKindMessage(kind, h, field, mapped);
+    if (say) p(say, h, "warning");
   });
   const byKey = new Map<string, MappedColumn[]>();
   for (const c of used) {

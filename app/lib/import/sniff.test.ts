@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { detectDelimiter, isUnitCell, sniffCsv } from "./sniff";
+import { detectDelimiter, sniffCsv } from "./sniff";
+import { isUnitCell } from "./units-row";
 import { fixture } from "./test-helpers";
 
 describe("sniffCsv on the fixtures", () => {

@@ -4,7 +4,8 @@
  */
 import { isCommaDecimalCell, isDotDecimalCell, parseNumber } from "./numbers";
 import { isBlankRow, normaliseNewlines, parseRows, stripBom, type Delimiter, type SourceRow } from "./parse";
-import { detectField, detectUnit, extractQualifier, headerUnitRefusal, normaliseHeader, NUMERIC_FIELDS } from "./units-in-headers";
+import { extractQualifier, normaliseHeader } from "./units-in-headers";
+import { unitsRowOf, type UnitsRow } from "./units-row";
 
 export interface SniffResult {
   delimiter: Delimiter;
@@ -13,6 +14,8 @@ export interface SniffResult {
   headerRowIndex: number;
   /** 1 normally; 2 when a units row sits under the names, or a group row ("2900 rpm") sits above them. */
   headerRowCount: number;
+  /** The units row merged into the names, with the units in it that no field knows (units-row.ts); null when there is none. */
+  unitsRow: UnitsRow | null;
   /** 1-based source line of the header row (0 when none). */
   headerLine: number;
   /** One name per column. Blank or missing names become "Column N" (1-based). */
@@ -100,21 +103,6 @@ function shape(cells: string[], decimalComma: boolean): RowShape {
 const isHeaderish = (s: RowShape) => s.nonEmpty >= 2 && s.numeric / s.nonEmpty < 0.5;
 const isDataish = (s: RowShape) => s.numeric >= 1 && s.numeric / s.nonEmpty >= 0.5;
 
-/** Digits that belong to a unit's spelling (m3, 1/min, min-1, mH2O, ft3, cm2): any other digit is a value or a name. */
-const UNIT_DIGITS = /m3|ft3|[ck]?m2|1\s*\/\s*min|min\s*-\s*1|h2o/g;
-
-/**
- * A cell of a units row: a unit word some field reads ("l/h", "rpm", "m", "(ft)", "%", "-", "Imp. gpm", "bkW") or refuses
- * ("kPa", "bar": merged into the header, the refusal is then named), with no field word of its own besides its unit's
- * ("rpm" is speed, "gpm" flow) and no number (a model "CM 32-160" above its points, a group label "2900 rpm" are not units).
- */
-export function isUnitCell(cell: string): boolean {
-  const norm = normaliseHeader(cell);
-  if (norm === "" || /\d/.test(norm.replace(UNIT_DIGITS, ""))) return false;
-  const own = detectField(norm);
-  return NUMERIC_FIELDS.some((f) => (own === "ignore" || own === f) && (detectUnit(f, norm) !== null || headerUnitRefusal(cell, f) !== null));
-}
-
 export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResult {
   const { text: noBom, hadBom } = stripBom(raw);
   let sampleText = noBom.length > SAMPLE_CHARS ? noBom.slice(0, SAMPLE_CHARS) : noBom;
@@ -129,6 +117,7 @@ export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResu
 
   let headerRowIndex = -1;
   let headerRowCount = 1;
+  let unitsRow: UnitsRow | null = null;
   let dataStartRow = nonBlank[0] ?? 0;
   let headerCells: string[] = [];
 
@@ -146,18 +135,15 @@ export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResu
         found = k;
         break;
       }
-      // names row followed by a units row (every filled cell a unit word), then data
+      // names row followed by a units row (every filled cell a unit word, known ones in the majority: units-row.ts), then data
       const after = nonBlank[k + 1];
-      if (
-        after !== undefined &&
-        records[after].cells.every((c) => c.trim() === "" || isUnitCell(c)) &&
-        nonBlank.slice(k + 2, k + 5).length > 0 &&
-        nonBlank.slice(k + 2, k + 5).every((j) => isDataish(shapes[j]))
-      ) {
+      const units = after === undefined ? null : unitsRowOf(records[after].cells);
+      if (units && nonBlank.slice(k + 2, k + 5).length > 0 && nonBlank.slice(k + 2, k + 5).every((j) => isDataish(shapes[j]))) {
         headerRowIndex = i;
         headerRowCount = 2;
-        const units = records[after].cells;
-        headerCells = records[i].cells.map((c, n) => (units[n]?.trim() ? `${c.trim()} ${units[n].trim()}` : c));
+        const cells = records[after].cells;
+        headerCells = records[i].cells.map((c, n) => (cells[n]?.trim() ? `${c.trim()} ${cells[n].trim()}` : c));
+        unitsRow = { line: records[after].line, known: units.known, unknown: units.unknown.map((n) => ({ index: n, unit: cells[n].trim(), name: (records[i].cells[n] ?? "").trim() })) };
         dataStartRow = after + 1;
         break;
       }
@@ -219,5 +205,5 @@ export function sniffCsv(raw: string, overrides: SniffOverrides = {}): SniffResu
   const headerLine = headerRowIndex >= 0 ? (records[headerRowIndex]?.line ?? 0) : 0;
   const dataStartLine =
     records[dataStartRow]?.line ?? (records.length ? records[records.length - 1].line + 1 : 1);
-  return { delimiter, decimalComma, headerRowIndex, headerRowCount, headerLine, headers, dataStartRow, dataStartLine, hadBom };
+  return { delimiter, decimalComma, headerRowIndex, headerRowCount, unitsRow, headerLine, headers, dataStartRow, dataStartLine, hadBom };
 }

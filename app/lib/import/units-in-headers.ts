@@ -19,6 +19,9 @@
 import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
 import { ELECTRICAL_POWER_WORD, namesInputPower } from "./input-power";
 import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
+import { PER_UNIT } from "./per-unit";
+import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
+import type { PowerKind } from "./power-kinds";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -204,17 +207,22 @@ const NOT_THE_PUMPS: RegExp[] = [
 
 function fieldWords(norm: string): Field {
   if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
+  if (FOERDERLEISTUNG.test(norm) && (detectUnit("flow", norm) ?? refusedAfter("flow", norm)) !== null) return "flow"; // ambiguous-power.ts
   for (const [field, re] of FIELD_RULES) if (re.test(norm)) return field;
   return "ignore";
 }
 
-/** A power that is not the pump's shaft power: the motor's electrical input (P1) or the hydraulic power (ρ·g·Q·H). */
-export type PowerKind = "input" | "hydraulic";
+export type { PowerKind } from "./power-kinds";
 
-/** The power a (normalised) header names when it is not shaft power (input-power.ts, hydraulic-power.ts), else null. */
+/** A unit word for power written in a (normalised) header, read or refused: it settles the headers of ambiguous-power.ts. */
+const namesPowerUnit = (norm: string) => (detectUnit("power", norm) ?? refusedAfter("power", norm)) !== null;
+
+/** The power a (normalised) header names when it is not shaft power (input-power.ts, hydraulic-power.ts, per-unit.ts, ambiguous-power.ts), else null. */
 function powerKindWords(norm: string): PowerKind | null {
   const field = fieldWords(norm);
+  if (field === "power" && PER_UNIT.test(norm)) return "per-unit";
   if ((field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm)) return "input";
+  if (field === "power" && FOERDERLEISTUNG.test(norm)) return namesPowerUnit(norm) ? "hydraulic" : "flow-or-hydraulic";
   if ((field === "power" || (field === "ignore" && HYDRAULIC_POWER_WORD.test(norm))) && namesHydraulicPower(norm)) return "hydraulic";
   return null;
 }
@@ -225,13 +233,24 @@ export function detectField(norm: string): Field {
 }
 
 /**
+ * "P_w"/"Pw" on the header as written (normalising makes "P_w" the "p w" of "P (W)") of a power or unknown column ("Series PW"
+ * stays a model): the water power with a power unit written apart, else ambiguous.
+ */
+function waterPowerKind(header: string): PowerKind | null {
+  const rest = withoutWaterPowerSymbol(header);
+  if (rest === null || !["power", "ignore"].includes(fieldWords(extractQualifier(normaliseHeader(header)).rest))) return null;
+  return namesPowerUnit(extractQualifier(normaliseHeader(rest)).rest) ? "hydraulic" : "water-or-watts";
+}
+
+/**
  * The power `header` names when it reads as power but is not the pump's shaft power: "input" (P1, "Input power",
- * "Motor kW", "kW el"...) or "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw"...); null otherwise.
- * guessHeader leaves such a column unmapped and checkMapping says why (notShaftPowerMessage).
+ * "Motor kW", "kW el"...), "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw (kW)"...), "per-unit" ("P.U."),
+ * or a word with two readings ("water-or-watts": "P_w"; "flow-or-hydraulic": "Förderleistung"); null otherwise.
+ * guessHeader leaves such a column unmapped and checkMapping says why (powerKindMessage, power-kinds.ts).
  */
 export function headerPowerKind(header: string): PowerKind | null {
   const norm = normaliseHeader(header);
-  return powerKindWords(norm) ?? powerKindWords(extractQualifier(norm).rest);
+  return waterPowerKind(header) ?? powerKindWords(norm) ?? powerKindWords(extractQualifier(norm).rest);
 }
 
 /** True when `header` reads as power but names the motor's electrical input power (P1): see headerPowerKind. */
@@ -266,7 +285,7 @@ export function detectUnit(field: Field, norm: string): Unit | null {
       return null;
     case "efficiency":
       if (/%|percent|\bpct\b/.test(norm)) return "%";
-      if (/fraction|^[^a-z0-9]*-[^a-z0-9]*$|\s-\s*$|p\.u\.|0\.\.1/.test(norm)) return "fraction";
+      if (/fraction|^[^a-z0-9]*-[^a-z0-9]*$|\s-\s*$|0\.\.1/.test(norm) || PER_UNIT.test(norm)) return "fraction";
       return null;
     case "power":
       if (/\bb?kw\b/.test(norm)) return "kW"; // bkW: brake (shaft) kilowatts
@@ -348,10 +367,16 @@ export interface HeaderGuess {
   inputPower: boolean;
   /** The header names the hydraulic power (ρ·g·Q·H), not shaft power: left unmapped, and checkMapping says why. */
   hydraulicPower: boolean;
+  /** Any power that is not read as shaft power (headerPowerKind): left unmapped, and checkMapping says why. */
+  powerKind: PowerKind | null;
 }
 
 /** Guess field, unit and wide-layout qualifier from one header cell. */
 export function guessHeader(header: string): HeaderGuess {
+  const unmapped = (kind: PowerKind | null, field: Field = "ignore"): HeaderGuess =>
+    ({ field, unit: null, unitFromHeader: false, qualifier: null, refused: null, inputPower: kind === "input", hydraulicPower: kind === "hydraulic", powerKind: kind });
+  const water = waterPowerKind(header);
+  if (water) return unmapped(water);
   const norm = normaliseHeader(header);
   const { qualifier, rest } = extractQualifier(norm);
   let field = detectField(rest);
@@ -359,12 +384,9 @@ export function guessHeader(header: string): HeaderGuess {
   const q = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr" ? qualifier : null;
   const base = q ? rest : norm;
   if (!q) field = detectField(norm);
-  if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) {
-    const kind = field === "ignore" ? headerPowerKind(header) : null;
-    return { field, unit: null, unitFromHeader: false, qualifier: null, refused: null, inputPower: kind === "input", hydraulicPower: kind === "hydraulic" };
-  }
+  if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) return unmapped(field === "ignore" ? headerPowerKind(header) : null, field);
   const nf = field as NumericField;
   const refused = refusal(nf, header, base);
   const unit = refused ? null : detectUnit(nf, base);
-  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused, inputPower: false, hydraulicPower: false };
+  return { field, unit: unit ?? DEFAULT_UNIT[nf], unitFromHeader: unit !== null, qualifier: q, refused, inputPower: false, hydraulicPower: false, powerKind: null };
 }

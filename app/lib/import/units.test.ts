@@ -338,8 +338,8 @@ describe("guessHeader — hydraulic power and power factor are not shaft power; 
     HYD("WHP"), // source: same
     HYD("Fluid power (kW)"), // source: common practice
     HYD("Useful power"), // source: common practice (useful = hydraulic output)
-    HYD("Pw"), // source: common practice (water power symbol)
-    HYD("Pw (kW)"), // source: same (was read as shaft power in kW)
+    ["Pw", "ignore", null, "water-or-watts"], // source: ambiguous-power.ts (water power symbol, or P in W: left for the user)
+    HYD("Pw (kW)"), // source: common practice (water power symbol; the unit written apart settles it: ambiguous-power.ts)
     HYD("Hydraulische Leistung"), // source: German "hydraulic power"
     HYD("Nutzleistung"), // source: German "useful power"
     HYD("Puissance hydraulique"), // source: French "hydraulic power"
@@ -361,7 +361,7 @@ describe("guessHeader — hydraulic power and power factor are not shaft power; 
     ["Power (bkW)", "power", "kW", null], // source: same (read from the header, not assumed)
     ["Shaft power output (kW)", "power", "kW", null], // source: shaft named: shaft power, though "output" is written
     ["P (W)", "power", "W", null], // source: hand-written (power in watts, not the symbol Pw)
-    ["Power p.u.", "power", "kW", null], // source: hand-written (p.u. is not the symbol P_u)
+    ["Power p.u.", "ignore", null, "per-unit"], // source: per-unit.ts (p.u. is a ratio to a base power, not the symbol P_u)
     ["Hydraulic efficiency %", "efficiency", "%", null], // source: the pump's efficiency (hydraulic here does not make it a power)
   ])("%s → %s [%s] (%s)", (header, field, unit, kind) => {
     const g = guessHeader(header);
