@@ -64,6 +64,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     message: res.message,
     stats: res.stats,
     npshaAtDuty: res.npshaAtDuty,
+    // A custom liquid: the ranking's figures are the water curves' (the engine's search), each verdict on the liquid.
+    customLiquid: res.system.input.fluid.kind === "custom" ? res.system.input.fluid.name || "the custom liquid" : null,
     hidden: res.hidden,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
@@ -183,6 +185,13 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.stats.rejectedByNpsh ? ` · ${d.stats.rejectedByNpsh} left out because their NPSHr at the duty is above the NPSHa there (${d.npshaAtDuty != null ? fmtQExact(sys, "head", d.npshaAtDuty, [0]) : "—"})` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
+        </p>
+      ) : null}
+      {d.stats && d.customLiquid ? (
+        <p className="text-xs caution" data-testid="search-liquid">
+          Ranked on the water curves: the efficiency, shaft power and "why this rank" figures are each pump's on water. Each row's verdict
+          and its NPSH over the band are judged on {d.customLiquid}, on the curve corrected for viscosity where ANSI/HI 9.6.7 applies (the
+          verdict says so); the candidate page shows every figure on the liquid.
         </p>
       ) : null}
       {d.stats && d.leftOut.count ? (

@@ -168,7 +168,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // curve's speed (ISO 9906: about 50–120 %, from memory; the engine's large-speed-change warning uses the same
   // bounds). Farther off, no tolerance verdict is given, with the reason.
   const speedRatio = rescaled && measured !== null && rated !== null ? measured / rated : null;
-  if (speedRatio !== null && (speedRatio < SPEED_RANGE[0] || speedRatio > SPEED_RANGE[1]) && verdict !== "unknown") {
+  const speedOutside = speedRatio !== null && (speedRatio < SPEED_RANGE[0] || speedRatio > SPEED_RANGE[1]) && verdict !== "unknown";
+  if (speedOutside) {
     verdict = "unknown";
     warnings.push(`No tolerance verdict: the measured speed (${Math.round(measured!)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${Math.round(rated!)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
@@ -208,7 +209,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     grade: { id: grade.id, flow: grade.flow, head: grade.head, powerAbove: grade.powerAbove, efficiencyBelow: grade.efficiencyBelow, source: grade.source },
     verdict,
     verdictText: VERDICT_TEXT[verdict],
-    message: engine.message,
+    // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
+    message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)` : engine.message,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,

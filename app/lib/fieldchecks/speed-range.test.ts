@@ -29,6 +29,9 @@ describe("the measured speed's distance from the curve's", () => {
       const said = r.warnings.find((w) => w.startsWith("No tolerance verdict: the measured speed"));
       if (verdict === "unknown") expect(said, String(rpm)).toMatch(/outside the 50 %–120 % within which the curve may be translated/);
       else expect(said, String(rpm)).toBeUndefined();
+      // The page's sentence agrees with the verdict: never "within grade 2B" where no verdict is given.
+      if (verdict === "unknown") expect(r.message, String(rpm)).toBe("Delivered point not judged against grade 2B: the measured speed is outside the range the curve may be translated to (see the warnings)");
+      else expect(r.message, String(rpm)).toMatch(/^Delivered point is within grade 2B/);
     }
     expect(atSpeed(1449).verdictText).toBe("no tolerance verdict");
     expect(SPEED_RANGE).toEqual([0.5, 1.2]);

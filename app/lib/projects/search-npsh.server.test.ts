@@ -2,45 +2,27 @@
 // band, the lowest margin deciding. A pump with a fine margin at the duty can cavitate at the band's
 // least-lift corner (more flow, more NPSHr): it is ranked after the pumps that do not, and says why.
 // Check values: common practice (NPSHa below NPSHr is a cavitation risk); the two pumps are made up
-// for this test (fictional "Probe" curves below), their NPSHr curves chosen far apart at high flow.
+// for these tests (fictional "Probe" curves, app/test/npsh-probe.ts), their NPSHr curves chosen far apart at high flow.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { searchForSystem } from "./search.server";
-import { defaultSystemInput, type SystemInput } from "./hydraulics";
-import { createLibrary, updateLibrary, type Viewer } from "../libraries";
-import { createProject, createSystem } from "./projects.server";
-import { importCsvText, M3H, viewerOfUser } from "./test-kit";
+import type { Viewer } from "../libraries";
+import { viewerOfUser } from "./test-kit";
 import { makeMember } from "~/test/harness";
+import { npshProbeProject, npshProbeSystem } from "~/test/npsh-probe";
 
 afterAll(() => closeDb());
-
-const FLOWS = [0, 30, 60, 90, 120, 150, 180, 210, 240]; // m³/h
-const head = (q: number) => 45 - 6 * (q / 100) ** 2; // m
-const eta = (q: number, peak: number) => (q === 0 ? 0 : peak * (q / 130) * (2 - q / 130));
-// Probe A: more efficient, NPSHr climbing steeply past 120 m³/h; Probe B: less efficient, flat NPSHr (m).
-const NPSHR_A = [1.5, 1.6, 1.8, 2.2, 5.0, 9, 14, 20, 26];
-const NPSHR_B = [1.5, 1.6, 1.8, 2.0, 2.3, 2.6, 3.0, 3.4, 3.8];
-const rows = (model: string, peak: number, npshr: number[]) =>
-  FLOWS.map((q, i) => `${model},end-suction,DN100,2900,200,${q},${head(q).toFixed(2)},${(eta(q, peak) * 100).toFixed(1)},${npshr[i]}`);
-const CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,npshr_m", ...rows("Probe A", 0.75, NPSHR_A), ...rows("Probe B", 0.7, NPSHR_B)].join("\n");
 
 let v: Viewer;
 let projectId: number;
 beforeAll(async () => {
   const m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const lib = await createLibrary(v, { name: "NPSH probes", description: "" });
-  await importCsvText(v, lib, CSV);
-  await updateLibrary(v, lib, { name: "NPSH probes", description: "", visibility: "workspace" });
-  projectId = await createProject(v, { name: "NPSH on the band", site: "", description: "" });
+  projectId = await npshProbeProject(v);
 });
 
-/** Static lift 20–28 m, 150 mm runs, duty 140 m³/h at 32.5 m; only the suction static head varies (it moves NPSHa, not the flows). */
 async function search(suctionStaticHead: number) {
-  const input: SystemInput = { ...defaultSystemInput(), staticLow: 20, staticHigh: 28, suctionStaticHead, duty: { flow: 140 * M3H, head: 32.5 } };
-  input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
-  const id = await createSystem(v, projectId, `Suction ${suctionStaticHead} m`, input);
-  const r = await searchForSystem(v, id);
+  const r = await searchForSystem(v, await npshProbeSystem(v, projectId, suctionStaticHead));
   const row = (model: string) => r.results.find((x) => x.model === model)!;
   return { r, a: row("Probe A"), b: row("Probe B") };
 }

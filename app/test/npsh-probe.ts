@@ -1,0 +1,32 @@
+// Two invented pumps for judging NPSH over a system's band (fictional "Probe" curves): A is the more efficient, its
+// NPSHr climbing steeply past 120 m³/h; B is less efficient with a flat NPSHr. On the system below, A looks fine at the
+// duty and cavitates at the band's least-lift corner for a low suction head. Used by the search's NPSH tests.
+import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
+import { createProject, createSystem } from "~/lib/projects/projects.server";
+import { defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
+import { importCsvText, M3H } from "~/lib/projects/test-kit";
+
+const FLOWS = [0, 30, 60, 90, 120, 150, 180, 210, 240]; // m³/h
+const head = (q: number) => 45 - 6 * (q / 100) ** 2; // m
+const eta = (q: number, peak: number) => (q === 0 ? 0 : peak * (q / 130) * (2 - q / 130));
+const NPSHR_A = [1.5, 1.6, 1.8, 2.2, 5.0, 9, 14, 20, 26]; // m
+const NPSHR_B = [1.5, 1.6, 1.8, 2.0, 2.3, 2.6, 3.0, 3.4, 3.8]; // m
+const rows = (model: string, peak: number, npshr: number[]) =>
+  FLOWS.map((q, i) => `${model},end-suction,DN100,2900,200,${q},${head(q).toFixed(2)},${(eta(q, peak) * 100).toFixed(1)},${npshr[i]}`);
+export const NPSH_PROBE_CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,npshr_m", ...rows("Probe A", 0.75, NPSHR_A), ...rows("Probe B", 0.7, NPSHR_B)].join("\n");
+
+/** A workspace library of the two probes and a project to put systems in. */
+export async function npshProbeProject(v: Viewer): Promise<number> {
+  const lib = await createLibrary(v, { name: "NPSH probes", description: "" });
+  await importCsvText(v, lib, NPSH_PROBE_CSV);
+  await updateLibrary(v, lib, { name: "NPSH probes", description: "", visibility: "workspace" });
+  return createProject(v, { name: "NPSH on the band", site: "", description: "" });
+}
+
+/** Static lift 20–28 m, 150 mm runs, duty 140 m³/h at 32.5 m; only the suction static head varies (it moves NPSHa, not the flows). */
+export function npshProbeSystem(v: Viewer, projectId: number, suctionStaticHead: number, fluid?: SystemInput["fluid"]): Promise<number> {
+  const input: SystemInput = { ...defaultSystemInput(), staticLow: 20, staticHigh: 28, suctionStaticHead, duty: { flow: 140 * M3H, head: 32.5 } };
+  if (fluid) input.fluid = fluid;
+  input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
+  return createSystem(v, projectId, `Suction ${suctionStaticHead} m`, input);
+}

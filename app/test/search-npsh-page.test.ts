@@ -1,0 +1,62 @@
+// The search page as rendered: the NPSH column is judged over the band (range, lowest and where, status) with the
+// rule under the table; pumps left out for NPSH at the duty are counted with NPSHa there; a custom liquid says the
+// ranking's figures are the water curves' and each verdict the liquid's. Real route module, guards and MariaDB
+// (app/test/harness.ts); the two pumps are invented (app/test/npsh-probe.ts). Check values: our product rules
+// (search.server.ts rankClass) and common practice (NPSHa below NPSHr: cavitation risk).
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { createRoutesStub } from "react-router";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import type { Viewer } from "~/lib/libraries";
+import { viewerOfUser } from "~/lib/projects/test-kit";
+import * as searchPage from "~/routes/systems.$id.search";
+import { call, makeMember, type TestMember } from "./harness";
+import { npshProbeProject, npshProbeSystem } from "./npsh-probe";
+
+afterAll(() => closeDb());
+
+let m: TestMember;
+let v: Viewer;
+let projectId = 0;
+beforeAll(async () => {
+  m = await makeMember("admin");
+  v = await viewerOfUser(m.userId);
+  projectId = await npshProbeProject(v);
+});
+
+async function pageHtml(id: number) {
+  const r = await call(searchPage.loader as never, { path: `/systems/${id}/search`, params: { id: String(id) }, cookie: m.cookie });
+  expect(r.status).toBe(200);
+  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
+  return renderToString(createElement(Stub, { initialEntries: [`/systems/${id}/search`], hydrationData: { loaderData: { "0": r.body } } } as never))
+    .replace(/<!-- -->/g, "")
+    .replace(/&#x27;/g, "'")
+    .replace(/&quot;/g, '"');
+}
+
+const text = (html: string, testId: string) => (new RegExp(`data-testid="${testId}[^"]*"[^>]*>(.*?)</(td|p)>`, "s").exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
+
+describe("the search page's NPSH", () => {
+  test("the column is judged over the band, the cavitating pump says where and ranks second; the rule is under the table", async () => {
+    const html = await pageHtml(await npshProbeSystem(v, projectId, 2));
+    const cells = [...html.matchAll(/data-testid="search-npsh-\d+"[^>]*>(.*?)<\/td>/gs)].map((x) => x[1].replace(/<[^>]+>/g, ""));
+    expect(cells).toHaveLength(2);
+    expect(cells[1]).toMatch(/^0\.\d+ – \d\.\d+ — lowest 0\.\d+ at least lift, new pipe \(cavitation-risk\)$/); // Probe A, second
+    expect(cells[0]).toMatch(/— lowest \d\.\d+ at least lift, new pipe \(ok\)$/); // Probe B, first
+    expect(text(html, "search-npsh-rule")).toMatch(/^NPSH margin over the band: NPSHa \/ NPSHr at least 1\.1 at the design point and at each corner of the band/);
+    expect(text(html, "search-stats")).not.toMatch(/left out because their NPSHr/);
+    expect(html).not.toContain('data-testid="search-liquid"');
+  });
+
+  test("pumps left out for NPSH at the duty are counted with NPSHa there", async () => {
+    const html = await pageHtml(await npshProbeSystem(v, projectId, -6));
+    expect(text(html, "search-stats")).toMatch(/ · 1 left out because their NPSHr at the duty is above the NPSHa there \(\d\.\d+ m\)/);
+  });
+
+  test("a custom liquid: the page says the ranking's figures are on water and each verdict on the liquid", async () => {
+    // A light oil (invented figures: 870 kg/m³, 0.05 Pa·s, 100 Pa vapour pressure).
+    const html = await pageHtml(await npshProbeSystem(v, projectId, 5, { kind: "custom", name: "Test oil", density: 870, dynamicViscosity: 0.05, vaporPressure: 100 }));
+    expect(text(html, "search-liquid")).toMatch(/^Ranked on the water curves: .* judged on Test oil, on the curve corrected for viscosity where ANSI\/HI 9\.6\.7 applies/);
+  });
+});
