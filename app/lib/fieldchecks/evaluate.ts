@@ -23,6 +23,7 @@ import {
 import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import { powerGradeOf, powerGradeSummary } from "./power-grade";
+import { curveOnLiquid } from "./liquid-curve";
 import type { CheckResult, Pt } from "./result";
 import { fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
@@ -129,6 +130,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     warnings.push(...s.warnings.map((w) => w.message));
   } else if (measured !== null) warnings.push("The pump curve has no rated speed, so it could not be rescaled to the measured speed: compared at the selected curve as stored.");
   else warnings.push("No speed entered: compared with the curve at the selection's design speed.");
+  // On a viscous custom liquid: the curve corrected as the selection's figures were (or no curve to hold the pump to).
+  const onLiquid = curveOnLiquid(curve, f.system.input.fluid, fluid.kinematicViscosity, measured ?? design);
+  curve = onLiquid.curve;
+  if (onLiquid.note) warnings.push(onLiquid.note);
   if (readings.speed.mode === "vfd") warnings.push("Speed from the drive frequency: base speed × frequency / base frequency (the motor's slip is taken as at the nameplate).");
 
   // Both gauges on the gauge reference; an absolute reading is taken relative to the standard atmosphere.
@@ -168,6 +173,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // curve's speed (ISO 9906: about 50–120 %, from memory; the engine's large-speed-change warning uses the same
   // bounds). Farther off, no tolerance verdict is given, with the reason.
   const speedRatio = rescaled && measured !== null && rated !== null ? measured / rated : null;
+  if (onLiquid.noVerdict && verdict !== "unknown") {
+    verdict = "unknown";
+    warnings.push(onLiquid.noVerdict);
+  }
   const speedOutside = speedRatio !== null && (speedRatio < SPEED_RANGE[0] || speedRatio > SPEED_RANGE[1]) && verdict !== "unknown";
   if (speedOutside) {
     verdict = "unknown";
@@ -210,7 +219,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     verdict,
     verdictText: VERDICT_TEXT[verdict],
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
-    message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)` : engine.message,
+    message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
+      : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)` : engine.message,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
