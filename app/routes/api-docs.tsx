@@ -167,6 +167,14 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           (counting from 0). A fault in the body as a whole (not JSON, not an object, empty) is reported for the field{" "}
           <code>(body)</code>. Up to 25 fields are listed; only the first complaint per field.
         </p>
+        <p className="text-sm text-slate-700">
+          Some requests are refused before any route reads them, in the same shape (<code>type</code>, <code>title</code>,{" "}
+          <code>status</code>, <code>detail</code>): a method the route does not take (<strong>405</strong>, with the
+          methods it does take in <code>Allow</code>; <code>OPTIONS</code> answers <strong>204</strong> with that{" "}
+          <code>Allow</code>), a path no API route serves (<strong>404</strong>), a write from another site's page carrying
+          your session cookie (<strong>403</strong>; token calls send no cookie) and a body over its limit (
+          <strong>413</strong>).
+        </p>
         <Code>{ERROR_EXAMPLE}</Code>
       </section>
 
