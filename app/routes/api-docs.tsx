@@ -66,6 +66,11 @@ const accountEndpoints = (size: PageSizes): [string, string, string][] => [
     `The models of one library's current revision with their curve sets (no points; flowMax m³/s, headMax m, impeller diameter m, speed rpm), in name order, ${size.models} a page: { units, paging, links, models }. 403 when a shared library needs the Network plan.`,
   ],
   ["GET /api/v1/models/:id", "library.read", "One model (name, type, size, notes), its library and revision, and its curve sets with their points, SI as for …/curves."],
+  [
+    "POST /api/v1/libraries/:id/upload",
+    "library.write",
+    "multipart/form-data: file (a CSV of curve points), optional mapping (JSON), policy (skip-curves or drop-points), import=1 and note. 201 { report, savedMappingUnreadable }: report holds the upload id, encoding, title, the mapping used, stats and every problem by line and column; with import=1 also revision (number, models, curves, points, skipped). With no mapping sent, the library's saved mapping (from its last import) is used when it still fits the file's headers, else one is proposed from them. A saved mapping that cannot be read is set aside, as on the mapping page, and savedMappingUnreadable says so — { detail, errors: [{ field, message }] }, field the place in the saved mapping, message what is wrong and the value stored; null otherwise. 400 for a mapping that is not valid (errors by field), 422 when nothing can be imported (the problem carries report and savedMappingUnreadable).",
+  ],
 ];
 
 /** How every list of the API pages (stated once; each list's row gives its page size). */
