@@ -10,9 +10,11 @@ import { encodeDocument } from "~/lib/shared/encode-document.server";
 import { allowedMethods, patternOf } from "~/lib/shared/methods";
 
 // For app/serve.mjs, which answers these before React Router sees the request (it reads them from the build
-// as it reads startupSettings): methods React Router does not take at all, and cross-site writes.
-export { unknownMethodAnswer } from "~/lib/shared/methods";
+// as it reads startupSettings): methods React Router does not take at all, and cross-site writes; and the shape of its
+// answers (problem+json under /api/, a small HTML page elsewhere).
+export { pageMethodRefusal, unknownMethodAnswer } from "~/lib/shared/methods";
 export { csrfRefusal } from "~/lib/auth/csrf.server";
+export { refusalAnswer } from "~/lib/shared/refusal.server";
 
 /**
  * Every setting, validated once when the server build is loaded: a missing or bad value stops the

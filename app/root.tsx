@@ -15,7 +15,8 @@ import "./app.css";
 import { csrfRefusal } from "~/lib/auth/csrf.server";
 import { getAuth } from "~/lib/auth/session.server";
 import { authWithWorkspaces } from "~/lib/auth/guards.server";
-import { methodNotAllowed, problem } from "~/lib/shared/problem.server";
+import { problem } from "~/lib/shared/problem.server";
+import { refusalResponse } from "~/lib/shared/refusal.server";
 import { methodVerdict } from "~/lib/shared/methods";
 import { requestScope } from "~/lib/shared/request-scope.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
@@ -31,25 +32,31 @@ export const middleware: Route.MiddlewareFunction[] = [
     ensureOutboxFlusher(); // idempotent: retries unsent mail in the background of each app process
     const url = new URL(request.url);
     const isApi = url.pathname.startsWith("/api/");
-    // Outside /api/ the method is checked here, before any action can run (React Router runs an
-    // action on PUT, PATCH and DELETE as on POST): the table is lib/shared/methods.ts. API routes
-    // answer wrong methods themselves (problem.server.ts methodNotAllowed).
-    if (!isApi) {
-      const { verdict, allow } = methodVerdict(request.method, pattern);
-      if (verdict === "options") return new Response(null, { status: 204, headers: { Allow: allow.join(", ") } });
-      if (verdict === "refuse") return methodNotAllowed(allow, `${request.method.toUpperCase()} is not taken here: use ${allow.join(" or ")}.`);
-    }
     const refusal = csrfRefusal(request);
     if (refusal) {
       if (isApi) throw problem({ title: "Forbidden", status: 403, detail: refusal });
       throw data(refusal, { status: 403 });
     }
+    // Outside /api/ the method is checked here, after the CSRF check and before any action can run (React
+    // Router runs an action on PUT, PATCH and DELETE as on POST): the table is lib/shared/methods.ts. API
+    // routes answer wrong methods themselves (problem.server.ts methodNotAllowed). The refusal is the small
+    // HTML page of lib/shared/refusal.server.ts, with Allow: app/serve.mjs answers the same before React
+    // Router in the same order (pageMethodRefusal), with the app's stylesheet; this one is for requests that
+    // reach the app otherwise (the dev server, tests).
+    if (!isApi) {
+      const { verdict, allow } = methodVerdict(request.method, pattern);
+      if (verdict === "options") return new Response(null, { status: 204, headers: { Allow: allow.join(", ") } });
+      if (verdict === "refuse") {
+        const detail = `${request.method.toUpperCase()} is not taken here: use ${allow.join(" or ")}.`;
+        return refusalResponse(url.pathname, { status: 405, title: "Method Not Allowed", detail, allow: allow.join(", ") });
+      }
+    }
     const length = Number(request.headers.get("content-length") ?? 0);
     const limit = bodyLimitFor(url.pathname);
     if (length > limit) {
       const detail = `The request is too large (${(length / 1048576).toFixed(1)} MB; the limit here is ${(limit / 1048576).toFixed(0)} MB).`;
-      if (isApi) throw problem({ title: "Payload Too Large", status: 413, detail });
-      throw data(detail, { status: 413 });
+      if (isApi) throw problem({ title: "Content Too Large", status: 413, detail });
+      throw data(detail, { status: 413, statusText: "Content Too Large" });
     }
     const res = await next();
     // A request that failed because the database is away (or a cluster node just went) is a 503

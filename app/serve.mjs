@@ -7,6 +7,8 @@
 //  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
 //  - answers of its own, before React Router, where React Router would refuse first and log a stack: a method
 //    it does not take (PROPFIND, TRACE…: 405 with the route's Allow) and a cross-site write (our CSRF check: 403),
+//    and the methods a route outside /api/ does not take (the root middleware's table: PUT, PATCH, DELETE…),
+//    each as the app answers elsewhere: problem+json under /api/, a small HTML page otherwise (refusalAnswer),
 //  - a clean stop on SIGTERM/SIGINT (HTTP server closed, then the process exits so the DB pool ends).
 import http from "node:http";
 import fs from "node:fs";
@@ -37,8 +39,13 @@ try {
 /** Validated by app/lib/shared/env.server.ts when the build loaded (app/entry.server.tsx). */
 const settings = build.entry.module.startupSettings;
 const { port, host, trustProxy } = settings;
-/** app/entry.server.tsx hands these over from app/lib: lib/shared/methods.ts and lib/auth/csrf.server.ts. */
-const { unknownMethodAnswer, csrfRefusal } = build.entry.module;
+/**
+ * app/entry.server.tsx hands these over from app/lib: lib/shared/methods.ts (two), lib/auth/csrf.server.ts and
+ * lib/shared/refusal.server.ts (the shape of every answer of ours below: one place, in TypeScript, with the API's problem).
+ */
+const { unknownMethodAnswer, csrfRefusal, pageMethodRefusal, refusalAnswer } = build.entry.module;
+/** The app's stylesheet for our refusal pages (the root route's CSS in the build's asset manifest). */
+const stylesheets = build.assets?.routes?.root?.css ?? [];
 
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
 /** Read by app/entry.server.tsx; always overwritten here. */
@@ -104,9 +111,7 @@ function tooLarge(req, res, limit, seen) {
   req.resume();
   const pathname = (req.originalUrl ?? req.url ?? "").split("?")[0];
   const detail = `The request is too large: the limit here is ${limit} bytes (${seen} read or declared).`;
-  const api = pathname.startsWith("/api/");
-  res.writeHead(413, { "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", "Cache-Control": "no-store" });
-  res.end(api ? JSON.stringify({ type: "about:blank", title: "Content Too Large", status: 413, detail }) : detail);
+  refuse(res, pathname, { status: 413, title: "Content Too Large", detail });
   setTimeout(() => req.socket?.destroy(), LINGER_MS).unref();
 }
 
@@ -144,28 +149,35 @@ function appUrlOf(req) {
   return `${req.protocol}://${hostname}${p ? `:${p}` : ""}${req.originalUrl}`;
 }
 
-/** Our own refusal: problem+json under /api/, plain text elsewhere. Nothing of the request is echoed but its method. */
-function refuse(res, api, status, title, detail, headers = {}) {
-  res.writeHead(status, { ...headers, "Content-Type": api ? "application/problem+json" : "text/plain; charset=utf-8", "Cache-Control": "no-store" });
-  res.end(api ? JSON.stringify({ type: "about:blank", title, status, detail }) : detail);
+/**
+ * Our own refusal ({ status, title, detail, allow? }): problem+json under /api/, a small HTML page elsewhere (refusalAnswer,
+ * lib/shared/refusal.server.ts). Nothing of the request is echoed but its method (and a cross-site write's Origin, escaped).
+ */
+function refuse(res, pathname, refusal) {
+  const answer = refusalAnswer(pathname, refusal, stylesheets);
+  res.writeHead(answer.status, answer.headers);
+  res.end(answer.body);
 }
 
 /**
  * What React Router would refuse before any middleware of ours runs, answered here instead: a method it does not
  * take (its 405 on a resource route said "Unexpected Server Error", with no Allow and a stack in the log), and a
  * cross-site write (its own Origin check on document and `.data` POSTs answered 400 and logged two stacks a request,
- * so anyone could fill the log). The CSRF check is the root middleware's own (lib/auth/csrf.server.ts), run earlier.
+ * so anyone could fill the log). The CSRF check is the root middleware's own (lib/auth/csrf.server.ts), run earlier;
+ * after it, as in the middleware, so is its method table outside /api/ (PUT, PATCH, DELETE, a POST to a page without an
+ * action: lib/shared/methods.ts), so that every refusal of a page is the same page, with the app's stylesheet.
  */
 function beforeRouter(req, res, next) {
   const pathname = req.path;
-  const api = pathname.startsWith("/api/");
   const unknown = unknownMethodAnswer(build.routes, req.method, pathname);
   if (unknown?.status === 204) return void res.writeHead(204, { Allow: unknown.allow, "Cache-Control": "no-store" }).end();
-  if (unknown?.status === 405) return refuse(res, api, 405, "Method Not Allowed", unknown.detail, { Allow: unknown.allow });
-  if (unknown) return refuse(res, api, unknown.status, "Not Found", unknown.detail);
+  if (unknown?.status === 405) return refuse(res, pathname, { status: 405, title: "Method Not Allowed", detail: unknown.detail, allow: unknown.allow });
+  if (unknown) return refuse(res, pathname, { status: unknown.status, title: "Not Found", detail: unknown.detail });
   const request = { method: req.method, get url() { return appUrlOf(req); }, headers: { get: (name) => req.get(name) ?? null } };
   const refusal = csrfRefusal(request);
-  if (refusal) return refuse(res, api, 403, "Forbidden", refusal);
+  if (refusal) return refuse(res, pathname, { status: 403, title: "Forbidden", detail: refusal });
+  const wrong = pageMethodRefusal(build.routes, req.method, pathname);
+  if (wrong) return refuse(res, pathname, { status: 405, title: "Method Not Allowed", detail: wrong.detail, allow: wrong.allow });
   next();
 }
 

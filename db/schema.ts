@@ -60,7 +60,7 @@ export const users = mysqlTable(
     passwordHash: varchar("password_hash", { length: 255 }).notNull(),
     emailVerified: boolean("email_verified").notNull().default(false),
     unitSystem: mysqlEnum("unit_system", ["SI", "US"]).notNull().default("SI"),
-    /** Per-quantity unit overrides over the preset, JSON text `{"flow":"L/s",…}` (checked on read: app/lib/shared/units.ts). */
+    /** Per-quantity unit overrides over the preset, JSON text `{"flow":"L/s",…}` (checked on read: app/lib/auth/stored-units.ts). */
     units: varchar("units", { length: 1000 }).notNull().default("{}"),
     currentWorkspaceId: ref("current_workspace_id"),
     createdAt: createdAt(),

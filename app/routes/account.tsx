@@ -3,6 +3,7 @@ import { Form, useLoaderData, useSearchParams } from "react-router";
 import type { Route } from "./+types/account";
 import { deviceId, listSessions, revokeDevice } from "~/lib/auth/session.server";
 import { sendVerification, updateProfile } from "~/lib/auth/accounts.server";
+import { unitsNotice } from "~/lib/auth/stored-units";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/auth/api-tokens.server";
 import { requireMember } from "~/lib/auth/guards.server";
 import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
@@ -11,6 +12,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PostButton } from "~/components/PostButton";
 import { UnitsFieldset } from "~/components/UnitsFieldset";
+import { StoredProblems } from "~/components/StoredProblems";
 import { useFormResult } from "~/components/useFormResult";
 import { PRESET_IDS, SETTABLE } from "~/lib/shared/units";
 import { UNITS, type Quantity } from "~/engine";
@@ -23,6 +25,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const [devices, tokens] = await Promise.all([listSessions(m.user.id), listApiTokens(m.user.id, m.workspace.id)]);
   return {
     user: { email: m.user.email, name: m.user.name, emailVerified: m.user.emailVerified, unitSystem: m.user.unitSystem, overrides: m.user.unitPicks },
+    /** The stored unit settings that cannot be read, said above the form (null when they can). */
+    unitsUnreadable: unitsNotice({ preset: m.user.unitSystem, problems: m.user.unitProblems }),
     workspace: m.workspace,
     devices: devices.map((d) => ({
       id: deviceId(d.id), // opaque: the session id is the cookie's value and never leaves the server
@@ -113,6 +117,14 @@ export default function Account() {
         <Form method="post" className="grid max-w-lg gap-3">
           <input type="hidden" name="intent" value="profile" />
           <Field label="Name" name="name" defaultValue={d.user.name} error={errors.name} required />
+          {d.unitsUnreadable ? (
+            <div className="space-y-1 rounded-md border border-duty px-3 py-2" role="note">
+              <p className="text-sm" data-testid="units-unreadable">
+                {d.unitsUnreadable.text}
+              </p>
+              <StoredProblems problems={d.unitsUnreadable.problems} count={d.unitsUnreadable.count} />
+            </div>
+          ) : null}
           <UnitsFieldset preset={d.user.unitSystem} overrides={d.user.overrides} errors={errors} />
           <div>
             <button className="btn">Save profile</button>

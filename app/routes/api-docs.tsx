@@ -66,6 +66,11 @@ const accountEndpoints = (size: PageSizes): [string, string, string][] => [
     `The models of one library's current revision with their curve sets (no points; flowMax m³/s, headMax m, impeller diameter m, speed rpm), in name order, ${size.models} a page: { units, paging, links, models }. 403 when a shared library needs the Network plan.`,
   ],
   ["GET /api/v1/models/:id", "library.read", "One model (name, type, size, notes), its library and revision, and its curve sets with their points, SI as for …/curves."],
+  [
+    "POST /api/v1/libraries/:id/upload",
+    "library.write",
+    "multipart/form-data: file (a CSV of curve points), optional mapping (JSON), policy (skip-curves or drop-points), import=1 and note. 201 { report, savedMappingUnreadable }: report holds the upload id, encoding, title, the mapping used, stats and every problem by line and column; with import=1 also revision (number, models, curves, points, skipped). With no mapping sent, the library's saved mapping (from its last import) is used when it still fits the file's headers, else one is proposed from them. A saved mapping that cannot be read is set aside, as on the mapping page, and savedMappingUnreadable says so — { detail, errors: [{ field, message }] }, field the place in the saved mapping, message what is wrong and the value stored; null otherwise. 400 for a mapping that is not valid (errors by field), 422 when nothing can be imported (the problem carries report and savedMappingUnreadable).",
+  ],
 ];
 
 /** How every list of the API pages (stated once; each list's row gives its page size). */
@@ -166,6 +171,14 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           <code>errors</code>, named as you wrote it — nested fields with dots and list positions with brackets
           (counting from 0). A fault in the body as a whole (not JSON, not an object, empty) is reported for the field{" "}
           <code>(body)</code>. Up to 25 fields are listed; only the first complaint per field.
+        </p>
+        <p className="text-sm text-slate-700">
+          Some requests are refused before any route reads them, in the same shape (<code>type</code>, <code>title</code>,{" "}
+          <code>status</code>, <code>detail</code>): a method the route does not take (<strong>405</strong>, with the
+          methods it does take in <code>Allow</code>; <code>OPTIONS</code> answers <strong>204</strong> with that{" "}
+          <code>Allow</code>), a path no API route serves (<strong>404</strong>), a write from another site's page carrying
+          your session cookie (<strong>403</strong>; token calls send no cookie) and a body over its limit (
+          <strong>413</strong>).
         </p>
         <Code>{ERROR_EXAMPLE}</Code>
       </section>

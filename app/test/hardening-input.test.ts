@@ -63,6 +63,8 @@ test("API upload of a,b\\n1,2 with import=1 → 422 problem+json, and no upload 
   const r = await call(apiUpload.action as never, { path: `/api/v1/libraries/${lib}/upload`, method: "POST", params: { id: String(lib) }, headers: { authorization: `Bearer ${token}` }, body: form });
   expect(r.status).toBe(422);
   expect(r.headers.get("content-type")).toBe("application/problem+json");
+  // The refusal carries the report (why nothing passed) and the saved-mapping notice (none saved here), as the /api page says.
+  expect(r.body).toMatchObject({ status: 422, detail: expect.stringMatching(/^(Nothing imported|No curve in this file passed)/), report: { stats: expect.any(Object) }, savedMappingUnreadable: null });
   expect(await db().select({ id: uploads.id }).from(uploads).where(eq(uploads.libraryId, lib))).toEqual([]);
 });
 

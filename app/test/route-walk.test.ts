@@ -5,8 +5,11 @@
 //
 // A route in app/routes.ts whose path parameters have no good value in GOOD_PARAMS below fails the
 // first test, so a new route cannot be added without being walked. The last two tests walk every route
-// with the methods no form sends (PUT, PATCH, DELETE) through the root middleware: 405 with Allow, and
-// no action run; and check the method table (app/lib/shared/methods.ts) against the route modules.
+// with the methods no form sends (PUT, PATCH, DELETE) through the root middleware: 405 with Allow, no
+// action run, and the answer in the shape of its side (problem+json with type, title, status and detail
+// under /api/; an HTML page with the status in its heading and the one sentence elsewhere — it was
+// problem+json on pages too); and check the method table (app/lib/shared/methods.ts) against the route modules.
+// The same refusals as app/serve.mjs gives them on the wire: app/test/server-before-router.test.ts.
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
@@ -255,6 +258,25 @@ async function checksums(): Promise<Record<string, string>> {
 
 const isApi = (path: string) => path.startsWith("api/");
 
+/**
+ * What is wrong with a refusal's shape (null: nothing). Under /api/: RFC 9457 problem+json with type, title, status (the
+ * answer's) and detail, all there. Elsewhere: an HTML document with the status and reason in its heading and one sentence
+ * below it (lib/shared/refusal.server.ts), never JSON or bare text.
+ */
+async function shapeOf(res: Response, api: boolean): Promise<string | null> {
+  const type = res.headers.get("content-type") ?? "(none)";
+  const text = await res.clone().text();
+  if (api) {
+    if (type !== "application/problem+json") return `Content-Type ${type}`;
+    const body = JSON.parse(text) as Record<string, unknown>;
+    const ok = typeof body.type === "string" && typeof body.title === "string" && body.status === res.status && typeof body.detail === "string" && body.detail.length > 0;
+    return ok ? null : `problem ${text.slice(0, 120)}`;
+  }
+  if (!/^text\/html(; charset=utf-8)?$/.test(type)) return `Content-Type ${type}: ${text.slice(0, 80)}`;
+  const m = /^<!DOCTYPE html>.*<h1[^>]*>(\d{3}) [^<]+<\/h1><p[^>]*>([^<]+)<\/p>/s.exec(text);
+  return m && Number(m[1]) === res.status && /\.$/.test(m[2]) ? null : `page ${text.slice(0, 120)}`;
+}
+
 test("PUT, PATCH and DELETE on every route of app/routes.ts: 405 with Allow naming what the route takes, and no action run (no row changed)", async () => {
   const fails: Failure[] = [];
   const before = await checksums();
@@ -286,6 +308,8 @@ test("PUT, PATCH and DELETE on every route of app/routes.ts: 405 with Allow nami
         // RFC 9110 §15.5.6: a 405 lists the methods the resource takes in Allow.
         const allow = res.headers.get("allow");
         if (res.status !== 405 || !allow) fails.push(`${label} → ${res.status}, Allow ${allow}`);
+        const shape = await shapeOf(res, isApi(r.path));
+        if (shape) fails.push(`${label}: ${shape}`);
         // Outside /api/ the root middleware answers from the table, before the action; API routes answer themselves.
         if (!isApi(r.path) && (ran || allow !== allowedMethods(r.path).join(", "))) fails.push(`${label}: ${ran ? "the action was reached" : `Allow ${allow}`}`);
       }

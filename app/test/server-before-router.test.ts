@@ -4,7 +4,10 @@
 //    {"message":"Unexpected Server Error"} and no Allow; now 405 with the route's Allow (problem+json under /api/,
 //    text elsewhere), an /api/ path no route serves 404, and TRACE echoes nothing;
 //  - a POST with a foreign Origin to a page or its `.data` came back 400 from React Router's own origin check with
-//    two stacks in the log per request; now our CSRF check (lib/auth/csrf.server.ts) answers 403 first, log quiet.
+//    two stacks in the log per request; now our CSRF check (lib/auth/csrf.server.ts) answers 403 first, log quiet;
+//  - these answers were bare text outside /api/ (and PUT/PATCH/DELETE on a page problem+json, from the root middleware);
+//    now every one is an HTML page with a heading and the sentence outside /api/, problem+json with type, title, status
+//    and detail under /api/ (lib/shared/refusal.server.ts), swept over every route of app/routes.ts below.
 // Expected values: RFC 9110 (§15.5.6: a 405 names the methods the resource takes in Allow; §9.3.8: TRACE
 // reflects the request, so a server that does not serve it must echo nothing), each route's own 405 (its Allow,
 // asked with a method it refuses) and the method table (lib/shared/methods.ts).
@@ -16,6 +19,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { allowedMethods } from "~/lib/shared/methods";
+import routeConfig from "~/routes";
 import { makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
 
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
@@ -53,6 +57,24 @@ function send(method: string, p: string, headers: Record<string, string> = {}, b
     req.on("error", reject);
     req.end(body);
   });
+}
+
+/** A page's refusal: an HTML document (no script) with the status in its heading and the one sentence below it, escaped. */
+function expectPage(r: Answer, label: string, status: number, sentence: string | RegExp) {
+  expect([label, r.status, /^text\/html(; charset=utf-8)?$/.test(String(r.headers["content-type"]))]).toEqual([label, status, true]);
+  expect(r.body.startsWith("<!DOCTYPE html>"), label).toBe(true);
+  const m = /<h1[^>]*>(\d{3}) ([^<]+)<\/h1><p[^>]*>([^<]+)<\/p>/.exec(r.body);
+  expect([label, m?.[1]], r.body.slice(0, 600)).toEqual([label, String(status)]);
+  const text = m![3].replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&#(39|x27);/g, "'").replace(/&amp;/g, "&");
+  if (typeof sentence === "string") expect(text, label).toBe(sentence);
+  else expect(text, label).toMatch(sentence);
+}
+
+/** An API refusal: RFC 9457 problem+json with type, title, status (the answer's) and detail, nothing else. */
+function expectProblem(r: Answer, label: string, status: number) {
+  expect([label, r.status, r.headers["content-type"]]).toEqual([label, status, "application/problem+json"]);
+  const body = JSON.parse(r.body) as Record<string, unknown>;
+  expect([label, Object.keys(body).sort(), typeof body.type, typeof body.title, body.status, typeof body.detail]).toEqual([label, ["detail", "status", "title", "type"], "string", "string", status, "string"]);
 }
 
 /** Lets the app's log reach us: one more round trip, then a moment for the pipe. */
@@ -109,14 +131,13 @@ describe.skipIf(!built)("methods React Router does not take, answered before it"
     expect((await send("OPTIONS", "/api/no/such/route")).status).toBe(404);
   });
 
-  test("outside /api/: 405 as text with Allow from the method table (lib/shared/methods.ts)", async () => {
+  test("outside /api/: 405 as an HTML page with Allow from the method table (lib/shared/methods.ts)", async () => {
     const from = app!.stderr().length;
     for (const [p, pattern] of PAGES) {
       for (const method of ["PROPFIND", "MKCOL", "TRACE", "UNLOCK"]) {
         const r = await send(method, p);
         expect([method, p, r.status, r.headers.allow]).toEqual([method, p, 405, allowedMethods(pattern).join(", ")]);
-        expect(r.headers["content-type"]).toBe("text/plain; charset=utf-8");
-        expect(r.body).toBe(`${method} is not taken here: use ${allowedMethods(pattern).join(" or ")}.`);
+        expectPage(r, `${method} ${p}`, 405, `${method} is not taken here: use ${allowedMethods(pattern).join(" or ")}.`);
       }
     }
     expect(await quietSince(from)).toBe("");
@@ -154,7 +175,7 @@ describe.skipIf(!built)("cross-site writes refused by our own check before React
       for (const origin of ["http://evil.example", "null", "not a url", `${base}.evil.example`]) {
         const r = await send("POST", p, { ...form, origin }, "intent=delete&name=x");
         expect([p, origin, r.status]).toEqual([p, origin, 403]);
-        expect(r.body).toMatch(/^Cross-site request refused/);
+        expectPage(r, `POST ${p} from ${origin}`, 403, /^Cross-site request refused \(origin .+\)\.$/);
       }
     }
     expect(await quietSince(from)).toBe("");
@@ -168,5 +189,56 @@ describe.skipIf(!built)("cross-site writes refused by our own check before React
     // Past the check: a wrong password is the sign-in form's own 400 (same origin, and the origin APP_URL names).
     for (const origin of [base, "https://dutymark.example"]) expect((await send("POST", "/signin", { ...form, origin, cookie: "" }, "email=nobody%40example.test&password=wrong")).status, origin).toBe(400);
     expect((await send("POST", "/workspace", form, "intent=rename&name=x")).status).toBe(403); // no Origin, no Sec-Fetch-Site, a cookie
+  });
+});
+
+type Entry = { path?: string; file: string; index?: boolean; children?: Entry[] };
+const flatten = (entries: Entry[], parent = ""): string[] =>
+  entries.flatMap((e) => {
+    const p = e.index ? parent : [parent, e.path ?? ""].filter(Boolean).join("/");
+    return [p, ...flatten(e.children ?? [], p)];
+  });
+/** Every route pattern of app/routes.ts once, with a path that matches it (ids 1: a refusal comes before any lookup). */
+const EVERY_ROUTE = [...new Set(flatten(routeConfig as Entry[]))].map((pattern) => ({ pattern, path: `/${pattern.replace(/:\w+/g, "1").replace(/\*$/, "no/such/thing")}` }));
+/** Paths the CSRF check does not cover (lib/auth/csrf.server.ts EXEMPT_PATHS / EXEMPT_PATTERNS): signed webhooks, cookie-less calculators. */
+const CSRF_EXEMPT = (p: string) => p === "/api/stripe/webhook" || p.startsWith("/api/v1/calc/");
+
+describe.skipIf(!built)("every route of app/routes.ts: its refusals are problem+json under /api/ and an HTML page elsewhere", () => {
+  test("a method React Router does not take (PROPFIND), PUT, and a cross-site POST: content type and body shape", async () => {
+    expect(EVERY_ROUTE.length).toBeGreaterThan(40);
+    const from = app!.stderr().length;
+    const form = { "content-type": "application/x-www-form-urlencoded" };
+    for (const { pattern, path: p } of EVERY_ROUTE) {
+      const api = p.startsWith("/api/");
+      const none = pattern === "api/*"; // no API route here: 404 for any method
+      const dav = await send("PROPFIND", p);
+      const put = await send("PUT", p, { ...form, origin: base }, "intent=delete");
+      const foreign = await send("POST", p, { ...form, origin: "http://evil.example" }, "intent=delete");
+      if (none) {
+        for (const [m, r] of [["PROPFIND", dav], ["PUT", put], ["POST", foreign]] as const) expectProblem(r, `${m} ${p}`, m === "POST" ? 403 : 404);
+        continue;
+      }
+      // RFC 9110 §15.5.6: the 405 names what the resource takes; PUT is taken by no route of ours.
+      expect([p, dav.headers.allow], "Allow on PROPFIND").toEqual([p, put.headers.allow]);
+      if (api) {
+        expectProblem(dav, `PROPFIND ${p}`, 405);
+        expectProblem(put, `PUT ${p}`, 405);
+        if (!CSRF_EXEMPT(p)) expectProblem(foreign, `POST ${p} from evil.example`, 403);
+      } else {
+        const allow = allowedMethods(pattern).join(", ");
+        expect([p, put.headers.allow]).toEqual([p, allow]);
+        const use = `use ${allowedMethods(pattern).join(" or ")}.`;
+        expectPage(dav, `PROPFIND ${p}`, 405, `PROPFIND is not taken here: ${use}`);
+        expectPage(put, `PUT ${p}`, 405, `PUT is not taken here: ${use}`);
+        expectPage(foreign, `POST ${p} from evil.example`, 403, "Cross-site request refused (origin http://evil.example).");
+      }
+    }
+    expect(await quietSince(from)).toBe("");
+  }, 60_000);
+
+  test("what a refusal says of the request is escaped on the page (the Origin it names)", async () => {
+    const r = await send("POST", "/signin", { "content-type": "application/x-www-form-urlencoded", origin: "http://<b>evil</b>.example" }, "a=1");
+    expect(r.body).not.toContain("<b>evil</b>");
+    expectPage(r, "an Origin with markup", 403, "Cross-site request refused (origin http://<b>evil</b>.example).");
   });
 });

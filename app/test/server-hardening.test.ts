@@ -154,9 +154,12 @@ describe.skipIf(!built)("documents and files", () => {
 });
 
 describe.skipIf(!built)("body limits on the bytes read", () => {
-  test("a chunked 3 MB POST to /signin is cut at 1 MB with 413 (no sign-in needed)", async () => {
+  test("a chunked 3 MB POST to /signin is cut at 1 MB with 413 (no sign-in needed), answered as a page (was bare text)", async () => {
     const r = await send("/signin", 3 * 1024 * 1024);
     expect(r.status).toBe(413);
+    // lib/shared/refusal.server.ts: the status in the heading, the sentence below it (limit: body-limits.mjs, 1 MiB for forms).
+    expect(r.type).toBe("text/html; charset=utf-8");
+    expect(r.body).toMatch(new RegExp(`^<!DOCTYPE html>.*<h1[^>]*>413 Content Too Large</h1><p[^>]*>The request is too large: the limit here is ${1024 * 1024} bytes \\(\\d+ read or declared\\)\\.</p>`, "s"));
   }, 30_000);
 
   test("a chunked 2 MB POST to /projects → 413; a declared 2 MB → 413 before reading", async () => {
@@ -168,6 +171,8 @@ describe.skipIf(!built)("body limits on the bytes read", () => {
     const r = await send("/api/stripe/webhook", 1024 * 1024, { headers: { "content-type": "application/json", "stripe-signature": "t=1,v1=x" } });
     expect(r.status).toBe(413);
     expect(r.type).toBe("application/problem+json");
+    // RFC 9457 members, as every API problem (problem.server.ts problemBody).
+    expect(JSON.parse(r.body)).toEqual({ type: "about:blank", title: "Content Too Large", status: 413, detail: expect.stringMatching(/^The request is too large: the limit here is 524288 bytes/) });
   }, 30_000);
 
   test("uploads take the upload class's limit from the shared table (app/lib/shared/body-limits.mjs): a declared 2 MB passes, 26 MB → 413", async () => {

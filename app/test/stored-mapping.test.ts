@@ -3,6 +3,9 @@
 // proposed a fresh mapping and said nothing, as if the library had never been imported. The saved mapping is a convenience,
 // not data, so it is still set aside — the page proposes the mapping from the file's headers, as for a first upload — but
 // now the page says so and what is wrong with it; the next import saves the mapping it used in its place.
+// The upload API (POST /api/v1/libraries/:id/upload) set it aside as silently while the page spoke: its answer now carries
+// the same notice (`savedMappingUnreadable`: detail and errors, as the API lists a stored document's problems), also on the
+// 422 of an import that the proposed mapping could not make.
 // Real route module, guards and MariaDB (app/test/harness.ts). Check values: our product rules (upload-analysis.ts,
 // stored-doc.ts), MappingSchema's own messages (app/lib/import/mapping.ts); the demo CSV is invented (fixtures/demo/).
 import { readFileSync } from "node:fs";
@@ -17,6 +20,8 @@ import { importUpload, storeUpload, type Viewer } from "~/lib/libraries";
 import { analyseStored } from "~/lib/libraries/upload-analysis";
 import { demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
+import * as uploadApi from "~/routes/api.v1.libraries.$id.upload";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { call, makeMember, type TestMember } from "./harness";
 
 afterAll(() => closeDb());
@@ -25,11 +30,23 @@ const FILE = "tallowmere.csv";
 const text = readFileSync(`fixtures/demo/${FILE}`, "utf8");
 let m: TestMember;
 let v: Viewer;
+let token = "";
 
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
+  token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "mapping", scope: "write" })).token;
 });
+
+type ApiNotice = { detail: string; errors: { field: string; message: string }[] } | null;
+type ApiAnswer = { report?: { mapping: unknown }; revision?: unknown; savedMappingUnreadable?: ApiNotice };
+/** The same file through the API, no mapping given (so the saved one is looked at); with import=1 when `importIt`. */
+const viaApi = (lib: number, importIt: boolean) => {
+  const fd = new FormData();
+  fd.append("file", new File([text], FILE, { type: "text/csv" }));
+  if (importIt) fd.append("import", "1");
+  return call(uploadApi.action as never, { path: `/api/v1/libraries/${lib}/upload`, params: { id: String(lib) }, method: "POST", body: fd, headers: { authorization: `Bearer ${token}` } });
+};
 
 type Page = { mappingSource: string; mapping: unknown; savedMappingUnreadable: { text: string; lines: string[] } | null };
 const savedOf = async (lib: number) => (await db().select({ mappingJson: libraries.mappingJson }).from(libraries).where(eq(libraries.id, lib)))[0].mappingJson;
@@ -49,6 +66,8 @@ test("control: a sound saved mapping is used, and no notice", async () => {
   expect(r.status).toBe(200);
   expect((r.body as Page).mappingSource).toBe("saved");
   expect((r.body as Page).savedMappingUnreadable).toBeNull();
+  const api = await viaApi(lib, false);
+  expect([api.status, (api.body as ApiAnswer).savedMappingUnreadable]).toEqual([201, null]);
 });
 
 type Corruption = { name: string; corrupt: (saved: string) => string; label: string; message: RegExp; stored: string | null };
@@ -70,9 +89,11 @@ const CASES: Corruption[] = [
 describe.each(CASES)("a saved mapping $name", (c) => {
   let page: Page;
   let ctx: Awaited<ReturnType<typeof libraryWithUpload>>;
+  let damaged = "";
   beforeAll(async () => {
     ctx = await libraryWithUpload(`Saved mapping ${c.name}`);
-    await db().update(libraries).set({ mappingJson: c.corrupt((await savedOf(ctx.lib))!) }).where(eq(libraries.id, ctx.lib));
+    damaged = c.corrupt((await savedOf(ctx.lib))!);
+    await db().update(libraries).set({ mappingJson: damaged }).where(eq(libraries.id, ctx.lib));
     const r = await ctx.page();
     expect(r.status).toBe(200);
     page = r.body as Page;
@@ -96,6 +117,24 @@ describe.each(CASES)("a saved mapping $name", (c) => {
     const html = renderToString(createElement(Stub, { initialEntries: [`/libraries/${ctx.lib}/uploads/${ctx.upload}`], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "");
     expect(html).toContain('data-testid="saved-mapping-unreadable">The column mapping saved with this library from its last import cannot be read');
     expect(html).not.toContain("Using the column mapping saved with this library");
+  });
+
+  test("the upload API says the same in its answer (was: set aside without a word), report and import alike", async () => {
+    for (const importIt of [false, true]) {
+      const r = await viaApi(ctx.lib, importIt);
+      expect([importIt, r.status]).toEqual([importIt, 201]);
+      const body = r.body as ApiAnswer;
+      expect(body.report?.mapping).toEqual(page.mapping); // the mapping proposed from the headers, as the page's
+      const notice = body.savedMappingUnreadable;
+      expect(notice?.detail).toMatch(/^The column mapping saved with this library from its last import cannot be read \(1 problem: /);
+      expect(notice?.detail).toContain(`: ${c.label}), so it is not used: report.mapping was proposed from this file's headers, as for a first upload.`);
+      // problemErrors (stored-doc.ts): the dotted path, and the page's line (label, message, value stored).
+      expect(notice?.errors).toHaveLength(1);
+      expect(notice?.errors[0].message).toBe(page.savedMappingUnreadable!.lines[0]);
+      if (importIt) expect(body.revision).toBeDefined();
+      // The import saved its mapping in the damaged one's place: put the damage back for the next round.
+      await db().update(libraries).set({ mappingJson: damaged }).where(eq(libraries.id, ctx.lib));
+    }
   });
 
   test("the next import saves the mapping it used in its place", async () => {

@@ -8,7 +8,8 @@ import { sessions, signInAttempts, users } from "@db/schema";
 import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
 import { oncePerRequest } from "../shared/request-scope.server";
-import { picksOf, unitsOf, type PresetId } from "../shared/units";
+import type { PresetId } from "../shared/units";
+import { readStoredUnits } from "./stored-units";
 import { CLIENT_IP_HEADER, clientIp } from "../shared/client-address";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
@@ -28,16 +29,19 @@ function makeLucia() {
       attributes: { secure: cookieSecure(), sameSite: "lax" },
     },
     getUserAttributes: (a) => {
-      const picks = picksOf(a.units);
+      const stored = readStoredUnits(a.unitSystem, a.units);
       return {
         email: a.email,
         name: a.name,
         emailVerified: Boolean(a.emailVerified),
-        unitSystem: a.unitSystem,
-        /** The display unit of every quantity: the preset with the user's overrides (unknown ids fall back to the preset). */
-        units: { ...unitsOf(a.unitSystem), ...picks }, // picks already checked by picksOf
+        /** The preset as read (SI when the stored one is neither SI nor US: `unitProblems` says so). */
+        unitSystem: stored.preset,
+        /** The display unit of every quantity: the preset with the user's overrides (the preset's alone when they cannot be read). */
+        units: stored.units,
         /** What the user picked per quantity (the account page's selects; the rest follows the preset). */
-        unitPicks: picks,
+        unitPicks: stored.picks,
+        /** Why the stored settings are not used (empty when they are): the account page's notice (stored-units.ts). */
+        unitProblems: stored.problems,
         currentWorkspaceId: a.currentWorkspaceId,
       };
     },

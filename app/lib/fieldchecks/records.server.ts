@@ -17,7 +17,8 @@ import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
 import { appUrl } from "../auth/accounts.server";
 import { deliveredSentence, evaluateCheck } from "./evaluate";
-import { renderUnits, unitsOf } from "../shared/units";
+import { renderUnits } from "../shared/units";
+import { readStoredUnits } from "../auth/stored-units";
 import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
 import type { CheckResult } from "./result";
 import { readStoredCheck } from "./stored-check";
@@ -335,7 +336,7 @@ async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fie
   const [me] = await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, viewer.userId));
   const checkedBy = `${me?.name || me?.email || "A member"} (${viewer.workspace.name})`;
   const link = `${appUrl()}/field/checks/${checkId}`;
-  const units = unitsOf(to.unitSystem, to.units); // the mail speaks the engineer's units
+  const units = readStoredUnits(to.unitSystem, to.units).units; // the mail speaks the engineer's units (the defaults when they cannot be read, as the pages)
   const title = renderUnits(sel.title, units);
   const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${renderUnits(deliveredSentence(r), units)}`;
   let msg;

@@ -4,6 +4,7 @@ import * as v from "valibot";
 import { MappingSchema, type Policy } from "../import";
 import { analyseStored, summarise, type UploadSummary } from "./upload-analysis";
 import { planBuffers, planImport, uploadReport, type ImportPlan, type UploadReport } from "./import-plan";
+import type { DocProblem } from "../projects/stored-doc";
 
 export type AnalysisJob =
   | { kind: "summary"; bytes: Uint8Array; mappingJson: string | null; mapping?: unknown }
@@ -27,6 +28,8 @@ export type ImportAnalysis = {
   /** Why the mapping used cannot be imported with (a suggestion that MappingSchema refuses), else null. */
   mappingRefused: string | null;
   report: UploadReport | null;
+  /** The library's saved mapping when it was looked at (no mapping given) and could not be read: what is wrong with it (set aside). */
+  savedMappingProblems: DocProblem[];
 };
 
 export type AnalysisOutput = { summary: UploadSummary } | ImportAnalysis;
@@ -35,10 +38,11 @@ export function runJob(job: AnalysisJob): AnalysisOutput {
   const lib = { mappingJson: job.mappingJson };
   if (job.kind === "summary") return { summary: summarise(analyseStored(job.bytes, lib, job.mapping)) };
   let a = analyseStored(job.bytes, lib, job.mapping);
+  const { savedMappingProblems } = a; // (the policy's second pass below is given its mapping: it looks at no saved one)
   if (job.policy && a.mapping.policy !== job.policy) a = analyseStored(job.bytes, lib, { ...a.mapping, policy: job.policy });
   const check = v.safeParse(MappingSchema, a.mapping);
   const mappingRefused = check.success ? null : check.issues.map((i) => i.message).join("; ");
-  return { plan: mappingRefused || job.plan === false ? null : planImport(a), mappingRefused, report: job.report ? uploadReport(a) : null };
+  return { plan: mappingRefused || job.plan === false ? null : planImport(a), mappingRefused, report: job.report ? uploadReport(a) : null, savedMappingProblems };
 }
 
 /** Buffers of an output that can be moved to the other thread instead of copied. */

@@ -7,7 +7,7 @@ import {
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
 import { firstCurveSets } from "../import/packed";
-import { MAX_PROBLEMS_LISTED, problemLine, problemsSummary, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
+import { MAX_PROBLEMS_LISTED, problemErrors, problemLine, problemsSummary, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
 
 export const PROBLEM_ROWS_SHOWN = 300;
 export const PREVIEW_CURVES = 12;
@@ -89,14 +89,32 @@ export function analyseStored(source: string | Uint8Array, lib: { mappingJson: s
   return out(first, "suggested", d, stored.problems);
 }
 
+const unreadable = (problems: readonly DocProblem[]) =>
+  `The column mapping saved with this library from its last import cannot be read (${problemsSummary(problems)}), so it is not used: `;
+
 /** What the mapping page says of a saved mapping that cannot be read (null when there is none such). */
 export function savedMappingNotice(problems: readonly DocProblem[]) {
   if (!problems.length) return null;
   return {
     text:
-      `The column mapping saved with this library from its last import cannot be read (${problemsSummary(problems)}), so it is not used: ` +
+      unreadable(problems) +
       "the mapping below is proposed from this file's headers, as for a first upload. Check it before importing; the import saves the mapping it uses in its place.",
     lines: problems.slice(0, MAX_PROBLEMS_LISTED).map(problemLine),
+  };
+}
+
+/**
+ * The same notice in the upload API's answer (`savedMappingUnreadable`, null when there is none such): `detail` as the page
+ * says it, for a caller that reads the report, and `errors` as the API lists a stored document's problems (problemErrors:
+ * the dotted path in the saved mapping, the page's line).
+ */
+export function savedMappingApiNotice(problems: readonly DocProblem[]) {
+  if (!problems.length) return null;
+  return {
+    detail:
+      unreadable(problems) +
+      "report.mapping was proposed from this file's headers, as for a first upload. An import saves the mapping it used in its place; send mapping to choose one.",
+    errors: problemErrors(problems),
   };
 }
 

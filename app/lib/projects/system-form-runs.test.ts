@@ -79,3 +79,24 @@ describe("roughness refused at its field", () => {
     expect(read({ ...typed, "run.0.agedRoughness": "0.9" }).errors).toEqual({});
   });
 });
+
+// Runs carry no id of their own (system-input.ts PipeRunObject: a list; the editor names each run by its position in the
+// form as sent, `run.N.…`). A run ticked "remove on save" is left out of the document before the schema checks it, so the
+// document's run K is not the form's run K after it: a schema refusal must be placed on the run it came from.
+describe("schema refusals placed on the run they came from", () => {
+  // Three typed-bore runs; the third's 6000 mm bore is read (6 m) and refused only by the schema (Inner diameter at most 5 m:
+  // system-input.ts, our product rule).
+  const three: Record<string, string> = {
+    runCount: "3",
+    ...Object.fromEntries([0, 1, 2].flatMap((i) => [[`run.${i}.side`, "discharge"], [`run.${i}.table`, ""], [`run.${i}.nominal`, ""], [`run.${i}.diameter`, "100"], [`run.${i}.length`, "10"], [`run.${i}.material`, "steel"], [`run.${i}.materialShown`, "steel"]])),
+    "run.2.diameter": "6000",
+  };
+  const SCHEMA_SAYS = "Inner diameter above 5000 mm? Check the unit."; // in the reader's units (SI: mm for diameters)
+  it("control: nothing removed, the third run's bore is refused at the third run", () => {
+    expect(read(three).errors).toEqual({ "run.2.diameter": SCHEMA_SAYS });
+  });
+  it("the first run removed: still at the third run's field (was at the second's, whose 100 mm bore is sound)", () => {
+    expect(read({ ...three, "run.0.remove": "on" }).errors).toEqual({ "run.2.diameter": SCHEMA_SAYS });
+    expect(read({ ...three, "run.1.remove": "on" }).errors).toEqual({ "run.2.diameter": SCHEMA_SAYS });
+  });
+});

@@ -100,9 +100,13 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   // and junk as none at all. The run count is the editor's own hidden field: a bad one drops no run silently.
   const runCount = countField(f.get("runCount"), "runCount", "the number of pipe runs", errors, MAX_RUNS) ?? 0;
   const runs: PipeRunInput[] = [];
+  // The form position (`run.N.`) each run of the document was read from: runs carry no id, and one ticked "remove on
+  // save" is left out, so the document's run K is not the form's run K after it (fieldFor places refusals by this).
+  const formRun: number[] = [];
   for (let i = 0; i < runCount; i++) {
     const p = `run.${i}.`;
     if (f.get(`${p}remove`) != null) continue;
+    formRun.push(i);
     const side = f.get(`${p}side`) === "suction" ? "suction" : "discharge";
     const pipeTable = (f.get(`${p}table`) ?? "").toString();
     const nominal = (f.get(`${p}nominal`) ?? "").toString();
@@ -192,18 +196,26 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   if (!r.success) {
     for (const issue of r.issues) {
       const path = (issue.path ?? []).map((x) => x.key);
-      errors[fieldFor(path)] ??= issue.message;
+      errors[fieldFor(path, (k) => formRun[k])] ??= issue.message;
     }
   }
   return { input: r.success && Object.keys(errors).length === 0 ? r.output : null, name, errors: renderDeep(errors, sys) };
 }
 
-/** Maps a schema issue path to the form field that holds it. */
-export function fieldFor(path: unknown[]): string {
+/**
+ * Maps a schema issue path to the form field that holds it. Pipe runs have no id of their own (the document stores a list,
+ * the editor names each run by its position in the form, `run.N.`), so a run's issue is placed by position: `formRun` gives
+ * the form position of the document's run K (the form read leaves out runs ticked for removal; a stored document's run K is
+ * the editor's run K, as `editorInput` keeps every run at its index). A run with no form position (one being added) is the
+ * runs' as a whole.
+ */
+export function fieldFor(path: unknown[], formRun: (k: number) => number | undefined = (k) => k): string {
   const [a, b, c] = path;
   if (a === "runs" && typeof b === "number") {
+    const i = formRun(b);
+    if (i === undefined) return "runs";
     const map: Record<string, string> = { diameter: "diameter", roughness: "roughness", agedRoughness: "agedRoughness", length: "length", extraK: "extraK" };
-    return `run.${b}.${map[String(c)] ?? String(c)}`;
+    return `run.${i}.${map[String(c)] ?? String(c)}`;
   }
   if (a === "duty") return b === "head" ? "dutyHead" : "dutyFlow";
   if (a === "fluid") return b === "dynamicViscosity" ? "viscosity" : String(b);

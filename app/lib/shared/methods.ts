@@ -4,7 +4,8 @@
 // OPTIONS and the WebDAV-style rest with a 405 it logs with a stack. A plain HTML form can only GET or
 // POST, and nothing of ours sends anything else to these routes. API routes (/api/…) answer wrong
 // methods themselves (refuseMethod in problem.server.ts, app/test/methods.test.ts). Methods React Router
-// does not take at all (PROPFIND, TRACE…) are answered before it by app/serve.mjs (unknownMethodAnswer below).
+// does not take at all (PROPFIND, TRACE…) are answered before it by app/serve.mjs (unknownMethodAnswer below), and so
+// are the ones this table refuses outside /api/ (pageMethodRefusal), so that every refusal of a page is one page.
 //
 // Keys are React Router's route patterns (the paths of app/routes.ts). app/test/route-walk.test.ts
 // checks this table against the route modules: a page without an action, or a resource route that
@@ -138,4 +139,19 @@ export function unknownMethodAnswer(routes: Record<string, RouteEntry | undefine
   const allow = [leaf?.loader?.allow, leaf?.action?.allow].find((a): a is string => typeof a === "string");
   if (!allow) return { status: 404, detail: "No API route at this path." };
   return apiOptions ? { status: 204, allow: `${allow}, OPTIONS` } : refuse(allow);
+}
+
+/**
+ * Outside /api/, a method React Router takes that the table refuses (PUT, PATCH or DELETE anywhere, a POST to a page or
+ * file without an action): the root middleware's own 405 (methodVerdict), for app/serve.mjs to answer first — after its
+ * CSRF check, as the middleware — so it is the same page as its other refusals, with the app's stylesheet. Null for
+ * anything else (API routes answer wrong methods themselves; GET, HEAD and OPTIONS go on; unknown methods:
+ * unknownMethodAnswer). A `.data` path is matched as its page.
+ */
+export function pageMethodRefusal(routes: Record<string, RouteEntry | undefined>, method: string, pathname: string): { status: 405; allow: string; detail: string } | null {
+  const m = method.toUpperCase();
+  const path = pathname === "/_root.data" ? "/" : pathname.replace(/\.data$/, "");
+  if (path.startsWith("/api/") || !ROUTER_METHODS.has(m)) return null;
+  const { verdict, allow } = methodVerdict(m, patternOf(routes, path));
+  return verdict === "refuse" ? { status: 405, allow: allow.join(", "), detail: `${m} is not taken here: use ${allow.join(" or ")}.` } : null;
 }

@@ -1,8 +1,11 @@
 // RFC 9457 problem details for API routes.
 export type Problem = { type?: string; title: string; status: number; detail?: string; [k: string]: unknown };
 
+/** The document itself (`type` "about:blank" unless given): every problem of the API, and app/serve.mjs's own (refusal.server.ts). */
+export const problemBody = (p: Problem): Problem => ({ type: p.type ?? "about:blank", ...p });
+
 export function problem(p: Problem, headers?: HeadersInit): Response {
-  const body = { type: p.type ?? "about:blank", ...p };
+  const body = problemBody(p);
   const h = new Headers(headers);
   h.set("Content-Type", "application/problem+json");
   h.set("Cache-Control", "no-store");

@@ -1,8 +1,8 @@
 /**
  * The user's display units: ONE definition for the server and the browser. A choice names a unit
  * id per quantity (ids of `UNITS` in `app/engine/units.ts`); the SI and US presets come from the
- * engine's `UNIT_SYSTEMS`; stored per-quantity overrides are checked against `UNITS[q]` and an
- * unknown id falls back to the preset. Formatters and the renderer of quantity tokens (`qt()` in
+ * engine's `UNIT_SYSTEMS`; `unitsOf`/`picksOf` build a choice from overrides, an unknown id falling back
+ * to the preset (a user's stored settings are read strictly, with their problems said: auth/stored-units.ts). Formatters and the renderer of quantity tokens (`qt()` in
  * the engine: `⟦flow|0.0111⟧`) live here too, so every page, report and e-mail follows the choice.
  */
 import { fromSI, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
