@@ -18,6 +18,7 @@ import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import type { SelectionCheckRow } from "~/components/SelectionFieldChecks";
 import * as selectionPage from "~/routes/selections.$id";
 import * as checkPage from "~/routes/field.checks.$id";
+import * as csvRoute from "~/routes/field.selections.$id.export-csv";
 import { call, makeMember, type TestMember } from "./harness";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
@@ -90,5 +91,19 @@ describe("the check's page states the grade's power and efficiency limits", () =
     expect(power[ids.over]).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.9 % (−3 % allowed, not met)."); // 1.02/1.12 − 1
     expect(power[ids.none]).toMatch(/^Power and efficiency were not judged against grade 1B: no power was recorded/);
     expect(power[ids.old]).toMatch(/^Power and efficiency were not judged against grade 1B: this check was recorded before/);
+  });
+
+  test("the history CSV gives each check's power judgement and its numbers, 'not judged' where it was not", async () => {
+    const r = await call(csvRoute.loader as never, { path: `/field/selections/${selectionId}/export.csv`, params: { id: String(selectionId) }, cookie: m.cookie });
+    const lines = String(r.body).trim().split("\r\n").filter((l) => !/^"?#/.test(l));
+    const head = lines[0].split(",");
+    const cell = (id: number, name: string) => lines.find((l) => l.startsWith(`${id},`))!.split(",")[head.indexOf(name)];
+    expect(cell(ids.over, "power_limits")).toBe("not met");
+    expect(Number(cell(ids.over, "power_dev_from_curve"))).toBeCloseTo(0.12, 6); // recorded as +12 % (beforeAll)
+    expect(Number(cell(ids.over, "power_allowed_above"))).toBe(0.04); // grade 1B, TOLERANCE_GRADES
+    expect(Number(cell(ids.over, "efficiency_dev_from_curve"))).toBeCloseTo(1.02 / 1.12 - 1, 6); // head +2 %, power +12 %
+    expect(cell(ids.none, "power_limits")).toBe("not judged");
+    expect(cell(ids.none, "shaft_power_w")).toBe("");
+    expect(cell(ids.old, "power_limits")).toBe("not judged");
   });
 });

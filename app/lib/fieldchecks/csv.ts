@@ -34,7 +34,9 @@ export function historyCsv(h: CheckHistoryForCsv): string {
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
-      "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "notes",
+      "suction_pa_gauge", "discharge_pa_gauge", "temperature_c",
+      "power_limits", "shaft_power_w", "power_dev_from_curve", "power_allowed_above", "pump_efficiency", "efficiency_dev_from_curve", "efficiency_allowed_below",
+      "notes",
     ],
   ];
   for (const c of [...h.checks].reverse()) {
@@ -45,8 +47,19 @@ export function historyCsv(h: CheckHistoryForCsv): string {
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
-        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, c.notes,
+        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), c.notes,
     ]);
   }
   return toCsv(lines, { precision: 8 });
+}
+
+/**
+ * The grade's power and efficiency limits as judged (power-grade.ts): "met", "not met" or "not judged" (a check
+ * recorded before they were judged reads "not judged" too), then shaft power (W), its deviation from the curve and the
+ * allowance, the pump's efficiency, its deviation and the allowance (fractions); blank where not judged.
+ */
+function powerColumns(r: CheckResult): unknown[] {
+  const c = r.powerGrade?.check ?? null;
+  if (!c || c.pass === null) return ["not judged", null, null, null, null, null, null];
+  return [c.pass ? "met" : "not met", c.power?.measured, c.power?.deviation, c.power?.allowed, c.efficiency?.measured, c.efficiency?.deviation, c.efficiency?.allowed];
 }
