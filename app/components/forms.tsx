@@ -95,3 +95,11 @@ export function Options<T extends string>({ values, label = (x) => x }: { values
     </option>
   ));
 }
+
+/**
+ * The workspace the page shows, sent with each of its forms: the action acts on that workspace or, when the
+ * session has switched to another meanwhile (another tab), refuses with 409 (`staleWorkspacePage`).
+ */
+export function PageWorkspaceField({ id }: { id: number }) {
+  return <input type="hidden" name="pageWorkspaceId" value={id} />;
+}

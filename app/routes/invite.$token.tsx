@@ -1,9 +1,10 @@
-import { Form, redirect, useLoaderData } from "react-router";
+import { data, Form, redirect, useLoaderData } from "react-router";
 import type { Route } from "./+types/invite.$token";
 import { acceptInvitation, findInvitation } from "~/lib/workspaces";
 import { getAuth } from "~/lib/auth/session.server";
 import { requireUser } from "~/lib/auth/guards.server";
 import { Card, FormError } from "~/components/forms";
+import { useFormResult } from "~/components/useFormResult";
 import { routeErrorBoundary } from "~/components/RouteError";
 
 export const meta: Route.MetaFunction = () => [{ title: "Invitation · Dutymark" }];
@@ -25,12 +26,17 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const auth = await requireUser(request);
   const res = await acceptInvitation(params.token, auth.user.id);
-  if (!res) return { error: "This invitation has expired, was withdrawn, or was already used." };
-  throw redirect("/workspace");
+  if (res.ok) throw redirect("/workspace");
+  if (res.reason === "wrong-address") {
+    // Only of an invitation that could still be used, whose address the page shows to whoever holds the link.
+    return data({ error: `This invitation is for ${res.email}, and you are signed in as ${auth.user.email}. Sign in as ${res.email} to accept it.` }, { status: 403 });
+  }
+  return { error: "This invitation has expired, was withdrawn, or was already used." };
 }
 
 export default function Invite({ params }: Route.ComponentProps) {
   const d = useLoaderData<typeof loader>();
+  const { data: answer } = useFormResult<{ error: string }>();
   const here = `/invite/${params.token}`;
   if (!d.valid) {
     return (
@@ -44,11 +50,24 @@ export default function Invite({ params }: Route.ComponentProps) {
       <p className="text-sm">
         You are invited as <strong>{d.role}</strong> ({d.email}).
       </p>
-      {d.signedIn ? (
+      {answer?.error ? (
+        <div className="mt-4">
+          <FormError error={answer.error} />
+        </div>
+      ) : null}
+      {d.signedIn && d.signedInAs !== d.email ? (
+        <div className="mt-4 space-y-2">
+          <p className="caution">
+            This invitation is for <strong>{d.email}</strong>. You are signed in as <strong>{d.signedInAs}</strong>, which cannot accept it:{" "}
+            {`sign out, then sign in as ${d.email} (or create an account with that address) and open this link again.`}
+          </p>
+          <Form method="post" action="/signout">
+            <input type="hidden" name="next" value={here} />
+            <button className="btn">Sign out and sign in as {d.email}</button>
+          </Form>
+        </div>
+      ) : d.signedIn ? (
         <Form method="post" className="mt-4 space-y-2">
-          {d.signedInAs !== d.email ? (
-            <p className="caution">You are signed in as {d.signedInAs}; accepting adds that account to the workspace.</p>
-          ) : null}
           <button className="btn">Accept and join</button>
         </Form>
       ) : (

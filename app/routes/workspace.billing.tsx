@@ -2,9 +2,9 @@ import { useEffect, useRef } from "react";
 import * as v from "valibot";
 import { Form, redirect, useLoaderData, useNavigation, useRevalidator } from "react-router";
 import type { Route } from "./+types/workspace.billing";
-import { requireMember } from "~/lib/auth/guards.server";
+import { requireMember, staleWorkspacePage } from "~/lib/auth/guards.server";
 import { can } from "~/lib/auth/permissions";
-import { invalid, readForm, readQuery } from "~/lib/shared/forms.server";
+import { invalid, PageWorkspaceId, readForm, readQuery } from "~/lib/shared/forms.server";
 import { listLibraries } from "~/lib/libraries";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import {
@@ -20,7 +20,7 @@ import {
   type InvoiceRow,
   paidPlanPrice,
 } from "~/lib/billing";
-import { FormOutcome, Notice } from "~/components/forms";
+import { FormOutcome, Notice, PageWorkspaceField } from "~/components/forms";
 import { settings } from "~/lib/shared/env.server";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
@@ -46,7 +46,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const shared = libraries.filter((l) => l.access !== "owner" && l.visibility === "shared");
   const checkout = readQuery(request.url, "checkout", 40) || null;
   return {
-    workspace: { name: m.workspace.name },
+    workspace: { id: m.workspace.id, name: m.workspace.name },
     role: m.role,
     manage,
     plan: state.plan,
@@ -66,12 +66,15 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-const Intent = v.object({ intent: v.picklist(["upgrade", "cancel", "resume", "portal"], "Unknown action.") });
+/** One intent, on the workspace the page showed (`pageWorkspaceId`, checked by `staleWorkspacePage`). */
+const Intent = v.object({ intent: v.picklist(["upgrade", "cancel", "resume", "portal"], "Unknown action."), pageWorkspaceId: PageWorkspaceId });
 
 export async function action({ request }: Route.ActionArgs) {
   const m = await requireMember(request, "billing.manage");
   const r = await readForm(request, Intent);
   if (!r.ok) return invalid(r.errors);
+  const stale = staleWorkspacePage(m, r.value.pageWorkspaceId);
+  if (stale) return invalid({ _form: stale }, 409);
   const appUrl = settings().appUrl ?? new URL(request.url).origin;
   try {
     switch (r.value.intent) {
@@ -151,7 +154,7 @@ export default function Billing() {
         </Notice>
       ) : null}
       {d.checkout === "canceled" ? <Notice>Checkout closed without paying. Nothing changed.</Notice> : null}
-      <FormOutcome notice={notice} error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form ?? errors.pageWorkspaceId} />
 
       <section className="panel space-y-2" aria-labelledby="plan-h">
         <h2 id="plan-h" className="text-lg font-semibold">
@@ -178,6 +181,7 @@ export default function Billing() {
           </h2>
           {d.plan === "free" ? (
             <Form method="post" className="space-y-2">
+              <PageWorkspaceField id={d.workspace.id} />
               <p className="text-sm text-slate-700">
                 {d.paid.name}: {d.paid.summary} You pay on Stripe's checkout page and can stop at the end of any period.
               </p>
@@ -189,6 +193,7 @@ export default function Billing() {
           ) : d.hasSubscription ? (
             <div className="flex flex-wrap gap-2">
               <Form method="post">
+                <PageWorkspaceField id={d.workspace.id} />
                 {d.cancelAtPeriodEnd ? (
                   <button className="btn" name="intent" value="resume" disabled={busy}>
                     Keep {d.paid.name}
@@ -200,6 +205,7 @@ export default function Billing() {
                 )}
               </Form>
               <Form method="post">
+                <PageWorkspaceField id={d.workspace.id} />
                 <button className="btn-quiet" name="intent" value="portal" disabled={busy}>
                   Payment details on Stripe
                 </button>

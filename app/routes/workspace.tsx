@@ -2,11 +2,11 @@ import * as v from "valibot";
 import { Form, useLoaderData } from "react-router";
 import type { Route } from "./+types/workspace";
 import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/workspaces";
-import { requireMember, setCurrentWorkspace } from "~/lib/auth/guards.server";
+import { requireMember, setCurrentWorkspace, staleWorkspacePage } from "~/lib/auth/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions";
-import { Email, IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
+import { Email, IdField, invalid, Name, PageWorkspaceId, readForm } from "~/lib/shared/forms.server";
 import { data } from "react-router";
-import { Field, FormOutcome, Options } from "~/components/forms";
+import { Field, FormOutcome, Options, PageWorkspaceField } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PostButton } from "~/components/PostButton";
 import { ListTable } from "~/components/ListTable";
@@ -31,14 +31,16 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 const Role = v.picklist(ROLES, "Pick a role.");
+/** Every form but the switch acts on the workspace its page showed (`pageWorkspaceId`, checked by `staleWorkspacePage`). */
+const page = { pageWorkspaceId: PageWorkspaceId };
 const Intent = v.variant("intent", [
   v.object({ intent: v.literal("switch"), workspaceId: IdField }),
-  v.object({ intent: v.literal("rename"), name: Name("a workspace name") }),
-  v.object({ intent: v.literal("currency"), currency: v.pipe(v.string(), v.trim(), v.toUpperCase(), v.regex(/^[A-Z]{3}$/, "Give a three-letter ISO 4217 code, e.g. EUR, USD, GBP.")) }),
-  v.object({ intent: v.literal("invite"), email: Email, role: Role }),
-  v.object({ intent: v.literal("revoke-invite"), invitationId: IdField }),
-  v.object({ intent: v.literal("role"), membershipId: IdField, role: Role }),
-  v.object({ intent: v.literal("remove"), membershipId: IdField }),
+  v.object({ intent: v.literal("rename"), name: Name("a workspace name"), ...page }),
+  v.object({ intent: v.literal("currency"), currency: v.pipe(v.string(), v.trim(), v.toUpperCase(), v.regex(/^[A-Z]{3}$/, "Give a three-letter ISO 4217 code, e.g. EUR, USD, GBP.")), ...page }),
+  v.object({ intent: v.literal("invite"), email: Email, role: Role, ...page }),
+  v.object({ intent: v.literal("revoke-invite"), invitationId: IdField, ...page }),
+  v.object({ intent: v.literal("role"), membershipId: IdField, role: Role, ...page }),
+  v.object({ intent: v.literal("remove"), membershipId: IdField, ...page }),
 ]);
 
 const NEEDS: Record<string, Permission> = {
@@ -56,6 +58,9 @@ export async function action({ request }: Route.ActionArgs) {
   const r = await readForm(request, Intent);
   if (!r.ok) return invalid(r.errors);
   const f = r.value;
+  // Before the role check: on the other workspace the role may differ, and the page's workspace is the real story.
+  const stale = f.intent === "switch" ? null : staleWorkspacePage(base, f.pageWorkspaceId);
+  if (stale) return invalid({ _form: stale }, 409);
   if (!can(base.role, NEEDS[f.intent])) throw data(`Your role (${base.role}) in ${base.workspace.name} does not allow this.`, { status: 403 });
   const ws = base.workspace;
   switch (f.intent) {
@@ -80,9 +85,19 @@ export async function action({ request }: Route.ActionArgs) {
       const res = f.intent === "role" ? await changeRole(ws.id, f.membershipId, f.role) : await removeMember(ws.id, f.membershipId);
       if (res === "not-found") return invalid({ _form: "No such member." }, 404);
       if (res === "last-admin") return invalid({ _form: "A workspace needs at least one admin." }, 409);
-      return { notice: f.intent === "role" ? "Role changed." : "Member removed." };
+      return { notice: typeof res === "string" ? "Role changed." : removalNotice(res) };
     }
   }
+}
+
+/** What a removal did, with its numbers: the member, and the pending invitations withdrawn with them. */
+function removalNotice(r: { withdrawnToThem: number; withdrawnSentByThem: number }): string {
+  const n = (k: number) => (k === 1 ? "1 pending invitation" : `${k} pending invitations`);
+  const parts = [
+    r.withdrawnToThem ? `${n(r.withdrawnToThem)} to their address` : "",
+    r.withdrawnSentByThem ? `${n(r.withdrawnSentByThem)} they had sent` : "",
+  ].filter(Boolean);
+  return parts.length ? `Member removed; withdrawn with them: ${parts.join(" and ")}.` : "Member removed; no pending invitations to or from them.";
 }
 
 export default function Workspace() {
@@ -98,7 +113,7 @@ export default function Workspace() {
           <a href="/workspace/billing">Plan and billing</a>
         </p>
       </div>
-      <FormOutcome notice={notice} error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form ?? errors.pageWorkspaceId} />
 
       {d.workspaces.length > 1 ? (
         <section className="panel">
@@ -122,11 +137,13 @@ export default function Workspace() {
         <section className="panel">
           <h2 className="text-lg font-semibold">Name</h2>
           <Form method="post" className="mt-2 flex flex-wrap items-end gap-3">
+            <PageWorkspaceField id={d.workspace.id} />
             <input type="hidden" name="intent" value="rename" />
             <Field label="Workspace name" name="name" defaultValue={d.workspace.name} error={errors.name} required />
             <button className="btn">Rename</button>
           </Form>
           <Form method="post" className="mt-3 flex flex-wrap items-end gap-3">
+            <PageWorkspaceField id={d.workspace.id} />
             <input type="hidden" name="intent" value="currency" />
             <Field label="Currency of tariffs and energy costs (ISO 4217)" name="currency" defaultValue={d.currency} error={errors.currency} required />
             <button className="btn-quiet">Set currency</button>
@@ -144,6 +161,7 @@ export default function Workspace() {
                 <td>
                   {admin ? (
                     <Form method="post" className="flex items-center gap-2">
+                      <PageWorkspaceField id={d.workspace.id} />
                       <input type="hidden" name="membershipId" value={mem.id} />
                       <label className="sr-only" htmlFor={`role-${mem.id}`}>
                         Role of {mem.email}
@@ -162,7 +180,7 @@ export default function Workspace() {
                 {admin ? (
                   <td className="text-right">
                     {mem.userId !== d.me ? (
-                      <PostButton intent="remove" field="membershipId" id={mem.id} className="btn-quiet py-0.5">
+                      <PostButton intent="remove" field="membershipId" id={mem.id} fields={{ pageWorkspaceId: d.workspace.id }} className="btn-quiet py-0.5">
                         Remove
                       </PostButton>
                     ) : null}
@@ -171,12 +189,19 @@ export default function Workspace() {
               </tr>
             ))}
         </ListTable>
+        {admin ? (
+          <p className="mt-2 text-sm text-slate-600">
+            Removing someone also withdraws the invitations to their address that are still pending here, and the pending invitations they sent;
+            invitations already accepted stay. A workspace keeps at least one admin.
+          </p>
+        ) : null}
       </section>
 
       {admin ? (
         <section className="panel space-y-3">
           <h2 className="text-lg font-semibold">Invite someone</h2>
           <Form method="post" className="flex flex-wrap items-end gap-3">
+            <PageWorkspaceField id={d.workspace.id} />
             <input type="hidden" name="intent" value="invite" />
             <Field label="E-mail" name="email" type="email" error={errors.email} required />
             <div>
@@ -196,7 +221,7 @@ export default function Workspace() {
                   <span>
                     {i.email} as {i.role} · expires {fmtDate(i.expiresAt)}
                   </span>
-                  <PostButton intent="revoke-invite" field="invitationId" id={i.id} className="btn-quiet py-0.5">
+                  <PostButton intent="revoke-invite" field="invitationId" id={i.id} fields={{ pageWorkspaceId: d.workspace.id }} className="btn-quiet py-0.5">
                     Withdraw
                   </PostButton>
                 </li>

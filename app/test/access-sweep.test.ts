@@ -50,19 +50,19 @@ export const SWEEP: Probe[] = [
   {
     name: "POST /workspace intent=role (B's membership id)",
     fn: () => workspaceRoute.action as never,
-    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "role", membershipId: String(c.bMembershipId), role: "viewer" } }),
+    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "role", membershipId: String(c.bMembershipId), role: "viewer", pageWorkspaceId: String(c.a.workspaceId) } }),
     unchanged: async (c) => (await db().select().from(memberships).where(eq(memberships.id, c.bMembershipId)))[0]?.role === "admin",
   },
   {
     name: "POST /workspace intent=remove (B's membership id)",
     fn: () => workspaceRoute.action as never,
-    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "remove", membershipId: String(c.bMembershipId) } }),
+    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "remove", membershipId: String(c.bMembershipId), pageWorkspaceId: String(c.a.workspaceId) } }),
     unchanged: async (c) => (await db().select().from(memberships).where(eq(memberships.id, c.bMembershipId))).length === 1,
   },
   {
     name: "POST /workspace intent=revoke-invite (B's invitation id)",
     fn: () => workspaceRoute.action as never,
-    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "revoke-invite", invitationId: String(c.bInvitationId) } }),
+    opts: (c) => ({ path: "/workspace", cookie: c.a.cookie, form: { intent: "revoke-invite", invitationId: String(c.bInvitationId), pageWorkspaceId: String(c.a.workspaceId) } }),
     unchanged: async (c) =>
       (await db().select().from(invitations).where(and(eq(invitations.id, c.bInvitationId), isNull(invitations.revokedAt)))).length === 1,
   },

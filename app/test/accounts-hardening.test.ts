@@ -43,7 +43,7 @@ describe("an attacker who signs up with someone else's address", () => {
     expect(t.status).toBe(403);
     await expect(createApiToken({ userId: u.id, workspaceId: ms.workspaceId, name: "door", scope: "write" })).rejects.toMatchObject({ init: { status: 403 } });
     expect(await db().select().from(apiTokens).where(eq(apiTokens.userId, u.id))).toEqual([]);
-    const inv = await call(workspaceRoute.action as never, { path: "/workspace", cookie, form: { intent: "invite", email: uniqEmail("friend"), role: "admin" } });
+    const inv = await call(workspaceRoute.action as never, { path: "/workspace", cookie, form: { intent: "invite", email: uniqEmail("friend"), role: "admin", pageWorkspaceId: String(ms.workspaceId) } });
     expect(inv.status).toBe(403);
     await expect(invite({ workspaceId: ms.workspaceId, workspaceName: "W", inviterId: u.id, inviterName: "M", email: uniqEmail("f"), role: "admin" })).rejects.toMatchObject({ init: { status: 403 } });
   });
@@ -203,15 +203,15 @@ describe("invitations", () => {
     const invited = await makeMember("viewer");
     const stranger = await makeMember("viewer");
     const secret = await invite({ workspaceId: admin.workspaceId, workspaceName: "W", inviterId: admin.userId, inviterName: "A", email: invited.email, role: "engineer" });
-    expect(await acceptInvitation(secret, stranger.userId)).toBeNull();
+    expect(await acceptInvitation(secret, stranger.userId)).toEqual({ ok: false, reason: "wrong-address", email: invited.email });
     expect(await db().select().from(memberships).where(and(eq(memberships.userId, stranger.userId), eq(memberships.workspaceId, admin.workspaceId)))).toEqual([]);
-    expect(await acceptInvitation(secret, invited.userId)).toEqual({ workspaceId: admin.workspaceId });
+    expect(await acceptInvitation(secret, invited.userId)).toEqual({ ok: true, workspaceId: admin.workspaceId });
   });
 
   test("accepting a lower-role invitation does not demote the workspace's only admin", async () => {
     const admin = await makeMember("admin");
     const secret = await invite({ workspaceId: admin.workspaceId, workspaceName: "W", inviterId: admin.userId, inviterName: "A", email: admin.email, role: "viewer" });
-    expect(await acceptInvitation(secret, admin.userId)).toEqual({ workspaceId: admin.workspaceId });
+    expect(await acceptInvitation(secret, admin.userId)).toEqual({ ok: true, workspaceId: admin.workspaceId });
     const [m] = await db().select().from(memberships).where(and(eq(memberships.userId, admin.userId), eq(memberships.workspaceId, admin.workspaceId)));
     expect(m.role).toBe("admin");
   });

@@ -38,7 +38,13 @@ test("sign-in with missing fields → 400; a reused or forged reset token → 40
 test("workspace actions with a malformed id or an unknown intent → 400, nothing changed", async () => {
   const a = await makeMember("admin");
   const before = (await db().select().from(workspaces).where(eq(workspaces.id, a.workspaceId)))[0].name;
-  const forms: Record<string, string>[] = [{ intent: "role", membershipId: "1; DROP TABLE users", role: "viewer" }, { intent: "explode" }, { intent: "rename", name: "x".repeat(500) }];
+  const page = { pageWorkspaceId: String(a.workspaceId) };
+  const forms: Record<string, string>[] = [
+    { intent: "role", membershipId: "1; DROP TABLE users", role: "viewer", ...page },
+    { intent: "explode", ...page },
+    { intent: "rename", name: "x".repeat(500), ...page },
+    { intent: "rename", name: "fine", pageWorkspaceId: "1; DROP TABLE users" },
+  ];
   for (const form of forms) {
     const r = await call(workspaceRoute.action as never, { path: "/workspace", cookie: a.cookie, form });
     expect(r.status).toBe(400);

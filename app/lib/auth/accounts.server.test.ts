@@ -131,13 +131,13 @@ describe("invitations and members", () => {
     const secret = await invite({ workspaceId: admin.workspaceId, workspaceName: "X", inviterId: admin.userId, inviterName: "A", email: guest.email, role: "contractor" });
     const mail = await lastMailTo(guest.email);
     expect(mail!.textBody).toContain(`/invite/${secret}`);
-    expect(await acceptInvitation(secret, guest.userId)).toEqual({ workspaceId: admin.workspaceId });
+    expect(await acceptInvitation(secret, guest.userId)).toEqual({ ok: true, workspaceId: admin.workspaceId });
     const [m] = await db()
       .select()
       .from(memberships)
       .where(and(eq(memberships.userId, guest.userId), eq(memberships.workspaceId, admin.workspaceId)));
     expect(m.role).toBe("contractor");
-    expect(await acceptInvitation(secret, guest.userId)).toBeNull();
+    expect(await acceptInvitation(secret, guest.userId)).toEqual({ ok: false, reason: "unusable" });
   });
 
   test("a withdrawn or expired invitation cannot be accepted", async () => {
@@ -146,10 +146,10 @@ describe("invitations and members", () => {
     const s1 = await invite({ workspaceId: admin.workspaceId, workspaceName: "X", inviterId: admin.userId, inviterName: "A", email: guest.email, role: "engineer" });
     const [inv] = await db().select().from(invitations).where(eq(invitations.workspaceId, admin.workspaceId));
     expect(await revokeInvitation(admin.workspaceId, inv.id)).toBe(true);
-    expect(await acceptInvitation(s1, guest.userId)).toBeNull();
+    expect(await acceptInvitation(s1, guest.userId)).toEqual({ ok: false, reason: "unusable" });
     const s2 = await invite({ workspaceId: admin.workspaceId, workspaceName: "X", inviterId: admin.userId, inviterName: "A", email: guest.email, role: "engineer" });
     await db().update(invitations).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(invitations.workspaceId, admin.workspaceId));
-    expect(await acceptInvitation(s2, guest.userId)).toBeNull();
+    expect(await acceptInvitation(s2, guest.userId)).toEqual({ ok: false, reason: "unusable" });
   });
 
   test("the last admin can be neither demoted nor removed", async () => {

@@ -120,6 +120,20 @@ export async function createAsMember<S extends v.GenericSchema>(
   throw redirect(page(await create(viewerOf(m), r.value)));
 }
 
+/**
+ * A form acts on the workspace its page showed, or on none. Forms send the page's workspace id
+ * (`PageWorkspaceId`); when the session has since moved to another workspace (switched in another tab),
+ * the words of the 409 refusal, naming both; null when they are the same.
+ */
+export function staleWorkspacePage(m: Member, pageWorkspaceId: number): string | null {
+  if (pageWorkspaceId === m.workspace.id) return null;
+  const shown = m.workspaces.find((w) => w.id === pageWorkspaceId);
+  return (
+    `Nothing was changed: this page was for ${shown ? `the workspace “${shown.name}”` : "a workspace you are no longer in"}, ` +
+    `and you are now working in “${m.workspace.name}” (switched in another tab or window). Reload the page and try again.`
+  );
+}
+
 export type ApiCaller = {
   userId: string;
   workspace: WorkspaceInfo;

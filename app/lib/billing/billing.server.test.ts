@@ -72,7 +72,7 @@ describe("checkout → webhook → plan", () => {
   test("cancel at period end keeps Network until the period ends, then Starter — Stripe API docs: cancel_at_period_end, customer.subscription.deleted", async () => {
     const admin = await makeMember("admin");
     const w = await subscribe(admin);
-    const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "cancel" } });
+    const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "cancel", pageWorkspaceId: String(admin.workspaceId) } });
     expect(r.status).toBe(200);
     expect((r.body as { notice: string }).notice).toContain("ends on");
     await waitFor(async () => (await ws(admin.workspaceId)).cancelAtPeriodEnd, "cancel_at_period_end from the webhook");
@@ -113,7 +113,7 @@ describe("checkout → webhook → plan", () => {
   test("the billing portal session opens for the workspace's own customer — Stripe API docs: billing_portal.sessions.create", async () => {
     const admin = await makeMember("admin");
     const w = await subscribe(admin);
-    const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "portal" } });
+    const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "portal", pageWorkspaceId: String(admin.workspaceId) } });
     expect(r.status).toBe(302);
     expect(r.location).toMatch(new RegExp(`^${kit.standIn.url}/portal/bps_`));
     const html = await (await fetch(r.location!)).text();
@@ -128,7 +128,7 @@ describe("checkout → webhook → plan", () => {
     await new Promise<void>((r) => dead.close(() => r()));
     process.env.STRIPE_API_BASE = `http://127.0.0.1:${port}`;
     try {
-      const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "upgrade" } });
+      const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "upgrade", pageWorkspaceId: String(admin.workspaceId) } });
       expect(r.status).toBe(502);
       expect(r.location).toBeNull();
       expect((r.body as { errors: { _form: string } }).errors._form).toContain("could not be reached");

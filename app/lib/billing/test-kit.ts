@@ -115,7 +115,7 @@ export async function waitFor<T>(fn: () => Promise<T | undefined | false | null>
 
 /** Admin presses "Upgrade": our action answers with a redirect to the stand-in's checkout page. */
 export async function upgrade(admin: TestMember) {
-  const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "upgrade" } });
+  const r = await call(billingRoute.action as never, { path: "/workspace/billing", cookie: admin.cookie, form: { intent: "upgrade", pageWorkspaceId: String(admin.workspaceId) } });
   expect(r.status).toBe(302);
   expect(r.location).toMatch(new RegExp(`^${kit.standIn.url}/pay/cs_test_`));
   return r.location!;

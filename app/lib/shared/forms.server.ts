@@ -113,6 +113,15 @@ export const Name = (label: string, max = 120) =>
 /** Optional free text (a description, a site): trimmed, at most `max` characters. */
 export const FreeText = (what: string, max: number) => v.pipe(v.string(), v.trim(), v.maxLength(max, `Keep the ${what} under ${max} characters.`));
 export const IdField = v.pipe(v.string(), v.regex(/^\d{1,15}$/, "Bad id."), v.transform(Number));
+/**
+ * The workspace a page showed, sent back by each of its forms (`PageWorkspaceField` in components/forms.tsx);
+ * the action compares it with the session's workspace (`staleWorkspacePage` in auth/guards.server.ts).
+ */
+export const PageWorkspaceId = v.pipe(
+  v.optional(v.string(), ""), // missing (a page from before the field) reads as blank: the message below, not valibot's
+  v.regex(/^\d{1,15}$/, "This form came from an older page: reload the page and try again."),
+  v.transform(Number),
+);
 
 /**
  * Only local paths may be returned to after sign-in (no open redirect). Browsers drop tabs and

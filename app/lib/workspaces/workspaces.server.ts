@@ -1,8 +1,10 @@
 // Workspaces and their members: create, rename, currency, list, change a role, remove. A workspace
-// always keeps at least one admin. Membership changes clear the verified-token cache once committed.
-import { and, eq, ne, count } from "drizzle-orm";
-import { db, withTransaction, type Db } from "@db/client.server";
-import { apiTokens, memberships, users, workspaces } from "@db/schema";
+// always keeps at least one admin; member changes lock the workspace's row first (`lockMembers`).
+// Removal withdraws pending invitations to and from the member. Membership changes clear the
+// verified-token cache once committed.
+import { and, eq, isNull, ne, count } from "drizzle-orm";
+import { affectedRows, db, withTransaction, type Db } from "@db/client.server";
+import { apiTokens, invitations, memberships, users, workspaces } from "@db/schema";
 import { newSecret } from "../auth/secrets.server";
 import { forgetTokens } from "../auth/token-cache.server";
 import type { Role } from "../auth/permissions";
@@ -64,12 +66,37 @@ export async function listMembers(workspaceId: number) {
     .orderBy(users.email);
 }
 
+/**
+ * Every change to a workspace's members (role, removal, an accepted invitation) first locks the workspace's
+ * row, so two of them never decide on the same state: two admins demoting or removing each other at the same
+ * moment each saw two admins under repeatable read and both went through, leaving none. The second now waits
+ * and counts again. Each of them takes this lock before any other, so for one workspace they run one after
+ * another and never deadlock each other.
+ */
+export async function lockMembers(tx: Db, workspaceId: number): Promise<boolean> {
+  const rows = await tx.select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.id, workspaceId)).for("update");
+  return rows.length === 1;
+}
+
+/** The workspace's admins, read as committed now (a locking read), not as the transaction's snapshot saw them. */
 async function adminCount(tx: Db, workspaceId: number): Promise<number> {
-  const [r] = await tx
-    .select({ n: count() })
+  const rows = await tx
+    .select({ id: memberships.id })
     .from(memberships)
-    .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.role, "admin")));
-  return Number(r?.n ?? 0);
+    .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.role, "admin")))
+    .for("update");
+  return rows.length;
+}
+
+/** The member `membershipId` of the workspace, locked, after the workspace's member lock. */
+async function lockedMember(tx: Db, workspaceId: number, membershipId: number) {
+  if (!(await lockMembers(tx, workspaceId))) return null;
+  const [m] = await tx
+    .select()
+    .from(memberships)
+    .where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)))
+    .for("update");
+  return m ?? null;
 }
 
 export type MemberChange = "ok" | "not-found" | "last-admin";
@@ -77,7 +104,7 @@ export type MemberChange = "ok" | "not-found" | "last-admin";
 /** Changes a member's role; a workspace always keeps at least one admin. */
 export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
   return clearingTokens(withTransaction(async (tx) => {
-    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    const m = await lockedMember(tx, workspaceId, membershipId);
     if (!m) return "not-found";
     if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
     await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
@@ -85,14 +112,29 @@ export async function changeRole(workspaceId: number, membershipId: number, role
   }));
 }
 
-export async function removeMember(workspaceId: number, membershipId: number): Promise<MemberChange> {
+/** A removal, with the pending invitations it withdrew: to the member's address, and those the member had sent. */
+export type Removal = Exclude<MemberChange, "ok"> | { removed: true; withdrawnToThem: number; withdrawnSentByThem: number };
+
+/**
+ * Removes a member (and their API tokens for this workspace); a workspace always keeps at least one admin.
+ * In the same transaction every pending invitation of this workspace to the member's address is withdrawn
+ * (else a second, unused invitation let them straight back in, with its role), and so is every pending
+ * invitation the member had sent (whom a removed admin invited is no longer vouched for; an admin who still
+ * wants them invites them again). Invitations already used stay as they are.
+ */
+export async function removeMember(workspaceId: number, membershipId: number): Promise<Removal> {
   return clearingTokens(withTransaction(async (tx) => {
-    const [m] = await tx.select().from(memberships).where(and(eq(memberships.id, membershipId), eq(memberships.workspaceId, workspaceId)));
+    const m = await lockedMember(tx, workspaceId, membershipId);
     if (!m) return "not-found";
     if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, m.userId));
+    const pending = and(eq(invitations.workspaceId, workspaceId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
+    const now = new Date();
+    const toThem = u ? affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pending, eq(invitations.email, u.email)))) : 0;
+    const sentByThem = affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pending, eq(invitations.invitedBy, m.userId))));
     await tx.delete(memberships).where(eq(memberships.id, m.id));
     await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
-    return "ok";
+    return { removed: true, withdrawnToThem: toThem, withdrawnSentByThem: sentByThem };
   }));
 }
 
