@@ -2,35 +2,46 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import type { CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { missingStepsText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
+import { column, moneySumNote, moneyText, printedSum } from "~/components/energy-numbers";
 
 type Cand = { id: number; label: string; energy?: Energy | null };
-
-export const moneyText = (x: number | null | undefined, currency: string) => (x == null || !Number.isFinite(x) ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
+type Cycle = NonNullable<Energy["cycle"]>;
 
 /**
- * The mark beside every energy total and life-cycle cost built on a cycle with unmet steps (their energy is missing,
- * so the figure is too low and not comparable with a complete one): "" when the cycle is complete.
+ * The mark beside every energy total and life-cycle cost built on a cycle with steps whose energy is missing (not met,
+ * or not computed: the figure is too low and not comparable with a complete one), in the steps' own words: "" when complete.
  */
 export function incompleteMark(cycle: Energy["cycle"] | undefined): string {
   if (!cycle || cycle.complete) return "";
-  const notMet = cycle.steps.filter((s) => s.status !== "ok" && s.hours > 0).length;
-  return ` (incomplete: ${notMet} of ${cycle.steps.length} steps not met)`;
+  return ` (incomplete: ${missingStepsText(cycle)})`;
 }
+
+/** The cycle's hours and energy columns, each at one precision with its total (energy-numbers.ts). */
+export const cycleColumns = (cycle: Cycle) => ({
+  hours: column(cycle.steps.map((s) => s.hours), cycle.totalHours),
+  energy: column(cycle.steps.map((s) => s.energyKWh), cycle.annualEnergyKWh),
+});
 
 /** The cycle's energy per year as shown in the table and the printed report, marked when incomplete or when no hours are given. */
 export function cycleEnergyText(e: Energy | null | undefined): string {
   if (!e?.cycle) return e?.cycleError ?? "—";
   if (e.cycle.totalHours === 0) return "— (no operating hours given)";
-  return `${fmtNum(e.cycle.annualEnergyKWh, 0)} kWh${incompleteMark(e.cycle)}`;
+  return `${cycleColumns(e.cycle).energy.total} kWh${incompleteMark(e.cycle)}`;
 }
 
-/** The life-cycle cost as one line: its total and years, marked when incomplete; why there is none when hours or tariff are not given. */
+/** The life-cycle cost's plausibility warnings (engine lifeCycleCost.ts; none in selections frozen before them). */
+export const lccWarnings = (lcc: Energy["lcc"] | undefined): string[] => (lcc?.warnings ?? []).map((w) => w.message);
+
+/**
+ * The life-cycle cost as one line: its total and years, marked when incomplete, with its warnings (rule and numbers);
+ * why there is none when hours or tariff are not given.
+ */
 export function lccText(e: Energy | null | undefined, currency: string): string {
-  if (e?.lcc) return `${moneyText(e.lcc.total, currency)} over ${e.lcc.yearly.length} years${incompleteMark(e.cycle)}`;
+  if (e?.lcc) return `${moneyText(e.lcc.total, currency)} over ${e.lcc.yearly.length} years${incompleteMark(e.cycle)}${lccWarnings(e.lcc).map((w) => ` — ▲ ${w}`).join("")}`;
   return e?.costMissing ? `— (${e.costMissing})` : "—";
 }
 
@@ -74,8 +85,15 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
   );
 }
 
+/** What the total row says when the rows as printed do not add up to it ("" when they do). */
+function roundedNote(cols: ReturnType<typeof cycleColumns>): string {
+  const off = [cols.hours.addsUp ? "" : `hours add up to ${printedSum(cols.hours)} h`, cols.energy.addsUp ? "" : `energy adds up to ${printedSum(cols.energy)} kWh`].filter(Boolean);
+  return off.length ? `Rows are rounded: as printed, their ${off.join(" and their ")}; the totals are of the unrounded values.` : "";
+}
+
 export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitChoice; currency: string; canWrite?: boolean; error?: string }) {
   const e = c.energy;
+  const cols = e?.cycle ? cycleColumns(e.cycle) : null;
   return (
     <div className="space-y-1" data-testid={`cycle-${c.id}`}>
       <h3 className="text-sm font-semibold">
@@ -88,7 +106,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
           ▲ {e.costMissing}: no energy cost counted and no life-cycle cost.
         </p>
       ) : null}
-      {e?.cycle ? (
+      {e?.cycle && cols ? (
         <div className="overflow-x-auto">
           <table className="w-full text-xs" aria-label={`Duty cycle of ${c.label}`}>
             <thead>
@@ -117,13 +135,18 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                         <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
                         <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
                       </>
+                    ) : s.status === "gravity-flow" ? (
+                      // No pump head needed: met, 0 kWh, with the engine's assumption (not a warning mark).
+                      <td colSpan={6} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
+                        {stepVerdict(s)}: {s.message}
+                      </td>
                     ) : (
                       <td colSpan={6} className="pr-2 text-duty-ink" data-testid={`step-${c.id}-${i}`}>
                         ▲ {stepVerdict(s)}: {s.message}
                       </td>
                     )}
-                    <td className="pr-2">{fmtNum(s.hours, 0)}</td>
-                    <td className="pr-2">{s.energyKWh == null ? "—" : `${fmtNum(s.energyKWh, 0)} kWh`}</td>
+                    <td className="pr-2">{cols.hours.rows[i]}</td>
+                    <td className="pr-2">{s.energyKWh == null ? "—" : `${cols.energy.rows[i]} kWh`}</td>
                   </tr>
                   {stepWarnings(e.cycle!, i).map((w) => (
                     <tr key={w}>
@@ -139,11 +162,18 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                 <td colSpan={9} className="pr-2">
                   Total per year{e.cycle.complete ? "" : `${incompleteMark(e.cycle)}: their energy is missing`}
                 </td>
-                <td className="pr-2">{fmtNum(e.cycle.totalHours, 0)}</td>
+                <td className="pr-2">{cols.hours.total}</td>
                 <td className="pr-2" data-testid={`cycle-total-${c.id}`}>
-                  {e.cycle.totalHours === 0 ? "—" : `${fmtNum(e.cycle.annualEnergyKWh, 0)} kWh · ${moneyText(e.annualCost, currency)}`}
+                  {e.cycle.totalHours === 0 ? "—" : `${cols.energy.total} kWh · ${moneyText(e.annualCost, currency)}`}
                 </td>
               </tr>
+              {roundedNote(cols) ? (
+                <tr>
+                  <td colSpan={11} className="pr-2 text-slate-600" data-testid={`cycle-rounded-${c.id}`}>
+                    {roundedNote(cols)}
+                  </td>
+                </tr>
+              ) : null}
             </tbody>
           </table>
         </div>
@@ -158,8 +188,16 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
       {e?.lcc ? (
         <p className="text-xs" data-testid={`lcc-${c.id}`}>
           Life-cycle cost over {e.lcc.yearly.length} years: <strong>{moneyText(e.lcc.total, currency)}</strong> = purchase {e.lcc.purchaseGiven ? moneyText(e.lcc.purchase, currency) : "not given (0)"} + energy {moneyText(e.lcc.energyPresentValue, currency)} (present value)
+          {moneySumNote([e.lcc.purchase, e.lcc.energyPresentValue], e.lcc.total, currency)}
           {e.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
         </p>
+      ) : null}
+      {lccWarnings(e?.lcc).length > 0 ? (
+        <ul className="text-xs text-duty-ink" data-testid={`lcc-warnings-${c.id}`}>
+          {lccWarnings(e?.lcc).map((w) => (
+            <li key={w}>▲ {w}</li>
+          ))}
+        </ul>
       ) : null}
       {canWrite ? (
         <Form method="post" className="no-print flex items-end gap-2">

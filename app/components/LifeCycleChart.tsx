@@ -3,6 +3,7 @@
 import { scaleLinear } from "d3-scale";
 import { line } from "d3-shape";
 import { fmtInt } from "~/lib/shared/format";
+import { moneyText } from "~/components/energy-numbers";
 
 export type LifeCycleSeries = { id: number; label: string; cumulative: number[] };
 
@@ -50,7 +51,7 @@ export function LifeCycleChart({ series, currency, title }: { series: LifeCycleS
         {shown.map((s, i) => (
           <span key={s.id} className="inline-flex items-center gap-1">
             <span className="inline-block h-0.5 w-4" style={{ background: COLOURS[i % COLOURS.length] }} />
-            {s.label}: {fmtInt(Math.round(s.cumulative[s.cumulative.length - 1]))} {currency}
+            {s.label}: {moneyText(s.cumulative[s.cumulative.length - 1], currency)}
           </span>
         ))}
       </figcaption>

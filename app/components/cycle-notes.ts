@@ -3,13 +3,14 @@
 // are shown at the step they name (`parameter` "profile[i]", app/engine/dutyCycle.ts) or under the table. Pure.
 import type { DutyCycleResult, StepResult } from "~/engine";
 import { fmtNum } from "~/lib/shared/units";
+import { amountText } from "~/components/energy-numbers";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/lib/projects/energy";
 
 // A step's verdict and the warnings by step are the energy module's (the selection's CSV export says them alike).
 export { cycleWarnings, stepVerdict, stepWarnings };
 
-/** The step as named in a note: its flow as a share of the duty flow and its hours, e.g. "45 % flow, 2000 h". */
-export const stepName = (s: Pick<StepResult, "flowFraction" | "hours">): string => `${fmtNum(s.flowFraction * 100, 0)} % flow, ${fmtNum(s.hours, 0)} h`;
+/** The step as named in a note: its flow as a share of the duty flow and its hours, e.g. "45 % flow, 2000 h", "25 % flow, 0.88 h". */
+export const stepName = (s: Pick<StepResult, "flowFraction" | "hours">): string => `${fmtNum(s.flowFraction * 100, 0)} % flow, ${amountText(s.hours)} h`;
 
 type Cycle = { steps: readonly Pick<StepResult, "flowFraction" | "hours" | "status" | "message">[]; warnings?: DutyCycleResult["warnings"] };
 

@@ -8,6 +8,7 @@ import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshP
 import { verdictLabel, type Verdict } from "~/engine";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { energyRows } from "~/components/CandidateEnergy";
+import { amountText, moneyText } from "~/components/energy-numbers";
 import { ListTable } from "./ListTable";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -136,8 +137,6 @@ function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | n
   return shown.every((t) => t === shown[0]) ? shown[0] : shown.join(" – ");
 }
 
-const money = (x: number | null | undefined, currency: string | undefined) => (x == null ? "—" : `${fmtNum(x, 0)} ${currency || "(currency not set)"}`);
-
 /** Side-by-side figures of the candidates at their operating points. */
 export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
   if (view.candidates.length === 0) return null;
@@ -199,8 +198,8 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       );
     }],
     ["Electrical input", (c) => fmtPower(unitSystem, c.result?.figures?.motor?.electricalPower)],
-    ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${fmtNum(c.result.figures.annualEnergyKWh, 0)} kWh` : "—")],
-    ["Energy cost per year", (c) => money(c.result?.figures?.annualCost, c.result?.figures?.motor?.currency)],
+    ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh` : "—")],
+    ["Energy cost per year", (c) => moneyText(c.result?.figures?.annualCost, c.result?.figures?.motor?.currency ?? "")],
     ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
   ];
   return (

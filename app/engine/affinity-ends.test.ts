@@ -53,7 +53,7 @@ describe("speedForDuty / trimForDuty: the last 1 % of every curve's flow range",
     }
   });
 
-  it("a duty below the curve at every allowed ratio is refused, not met at the curve's end", () => {
+  it("a duty below the curve at every ratio where its flow is on the curve is refused, not met at the curve's end", () => {
     const r = prng(5);
     for (let i = 0; i < 500; i++) {
       const d = demo[Math.floor(r() * demo.length)];
@@ -61,7 +61,9 @@ describe("speedForDuty / trimForDuty: the last 1 % of every curve's flow range",
       const sMin = qd / d.c.flowMax;
       const hd = 0.5 * sMin * sMin * evalCubic(d.c.head, d.c.flowMax)!; // half what the lowest usable ratio gives
       if (!(hd > 0)) continue;
-      expect(speedForDuty(d.c, { flow: qd, head: hd }, { min: 0.3 }).status).toBe("duty-below-limit");
+      // The lowest usable ratio (≥ 0.5) is the curve's end, above the 0.3 limit: the flow lies past the curve's end below
+      // it, so the answer is outside-curve (was duty-below-limit, "needs a speed below the lowest allowed": not so).
+      expect(speedForDuty(d.c, { flow: qd, head: hd }, { min: 0.3 }).status).toBe("outside-curve");
       // the search must not report the curve's end as a root either (it used to for 69 of 2000 such duties)
       expect(searchDuty([{ id: d.id, curve: d.curve }], { flow: qd, head: hd }, { methods: ["speed"], minSpeedRatio: 0.3 }).candidates).toHaveLength(0);
     }

@@ -14,7 +14,7 @@ import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, 
 import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
-import { fmtPctExact, fmtPctLimit, qtPair } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtPair } from "./quantityText.ts";
 
 /** Impeller trim law. */
 export type TrimLaw = "linear" | "square";
@@ -135,37 +135,56 @@ function evalAtEnds(c: MonotoneCubic, t: number): number | null {
   return evalCubic(c, t);
 }
 
+/** Where the duty's flow leaves the curve when no ratio meets it: the ratio at that end and the head there (m). */
+interface CurveEdge {
+  at: "end" | "start";
+  ratio: number;
+  head: number;
+}
+type Solved =
+  | { status: "ok"; ratio: number }
+  | { status: "duty-above-curve" | "duty-below-limit"; ratio: null }
+  | { status: "outside-curve"; ratio: null; edge: CurveEdge | null };
+
 /**
  * Solves s such that the scaled curve passes through (Qd, Hd): s²·H(Qd/s^k) = Hd, for
  * k = 1 (speed, linear trim) or 2 (square trim). Returns the largest root in [lo, hi].
  * The scan runs from the highest ratio down to exactly the lowest one whose flow still lies on
  * the curve (Qd/s^k at the curve's end, rounding absorbed by evalAtEnds), so duties in the last
  * interval of the curve are found; an end within 1e-9 of the duty head counts as a root.
+ * Without a root the duty lies on one side of the curve at every ratio where its flow is on it. The answer
+ * names what bounds that range: the ratio limit (`duty-below-limit` at lo, `duty-above-curve` at hi), or
+ * the curve's own end (`outside-curve` with the edge: below the ratio at which Qd reaches the curve's last
+ * flow, Qd lies past the curve's end and the curve says nothing there; likewise past its first flow).
  */
-function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number, hi: number) {
+function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number, hi: number): Solved {
   const f = (s: number) => {
     const h = evalAtEnds(c.head, qd / Math.pow(s, k));
     return h === null ? NaN : s * s * h - hd;
   };
-  // Ratios for which Qd/s^k lies on the curve.
-  const sMin = Math.max(lo, Math.pow(qd / c.flowMax, 1 / k));
-  const sMax = c.flowMin > 0 ? Math.min(hi, Math.pow(qd / c.flowMin, 1 / k)) : hi;
-  if (!(sMin <= sMax)) return { status: "outside-curve" as const, ratio: null };
+  // Ratios for which Qd/s^k lies on the curve: from the one at the curve's last flow to the one at its first.
+  const sEnd = Math.pow(qd / c.flowMax, 1 / k);
+  const sStart = c.flowMin > 0 ? Math.pow(qd / c.flowMin, 1 / k) : Infinity;
+  const sMin = Math.max(lo, sEnd);
+  const sMax = Math.min(hi, sStart);
+  if (!(sMin <= sMax)) return { status: "outside-curve", ratio: null, edge: null };
   const atRoot = (v: number) => Math.abs(v) <= 1e-9 * hd;
   const N = 48;
   let prevS = sMax, prevF = f(sMax);
-  if (atRoot(prevF)) return { status: "ok" as const, ratio: sMax };
+  if (atRoot(prevF)) return { status: "ok", ratio: sMax };
   for (let i = 1; i <= N; i++) {
     const s = i === N ? sMin : sMax - ((sMax - sMin) * i) / N;
     const fs = f(s);
     if (prevF * fs < 0) {
       const r = brent(f, s, prevS, 1e-14);
-      if (r) return { status: "ok" as const, ratio: r.x };
+      if (r) return { status: "ok", ratio: r.x };
     }
-    if (atRoot(fs)) return { status: "ok" as const, ratio: s };
+    if (atRoot(fs)) return { status: "ok", ratio: s };
     prevS = s; prevF = fs;
   }
-  return { status: (f(sMax) < 0 ? "duty-above-curve" : "duty-below-limit") as "duty-above-curve" | "duty-below-limit", ratio: null };
+  const fMax = f(sMax);
+  if (fMax < 0) return sMax < hi ? { status: "outside-curve", ratio: null, edge: { at: "start", ratio: sMax, head: fMax + hd } } : { status: "duty-above-curve", ratio: null };
+  return sMin > lo ? { status: "outside-curve", ratio: null, edge: { at: "end", ratio: sMin, head: f(sMin) + hd } } : { status: "duty-below-limit", ratio: null };
 }
 
 function checkDuty(duty: { flow: number; head: number }) {
@@ -176,8 +195,21 @@ function checkDuty(duty: { flow: number; head: number }) {
 type NoRatio = Exclude<RatioSolution["status"], "ok">;
 
 /** The answer when no ratio in the limits meets the duty, with the message for its reason. */
-function noRatio(status: NoRatio, messages: Record<NoRatio, string>): RatioSolution {
-  return { status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [], message: messages[status] };
+function noRatio(status: NoRatio, message: string): RatioSolution {
+  return { status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [], message };
+}
+
+/**
+ * Why no ratio meets the duty when its flow is off the curve at every ratio that would: the ratio at which the flow
+ * reaches the curve's end (or first point) and the head the scaled curve gives there, both heads kept apart (qtPair).
+ * `ratioWords(s)` names a ratio ("65.5 % speed", "a diameter ratio of 80.0 %").
+ */
+function edgeMessage(c: PumpCurve, duty: { qd: number; hd: number }, edge: CurveEdge, ratioWords: (s: number) => string): string {
+  const [gives, needs] = qtPair("head", edge.head, duty.hd);
+  const at = ratioWords(edge.ratio);
+  return edge.at === "end"
+    ? `the duty flow ${qt("flow", duty.qd)} reaches the curve's end (${qt("flow", c.flowMax)} as published) only at ${at}, where the pump gives ${gives}, more than the duty's ${needs}; below that the flow lies past the curve's end, where the curve gives no data`
+    : `the duty flow ${qt("flow", duty.qd)} leaves the curve's first point (${qt("flow", c.flowMin)} as published) at ${at}, where the pump gives ${gives}, less than the duty's ${needs}; above that the flow lies before the curve's first point, where the curve gives no data`;
 }
 
 /**
@@ -195,12 +227,12 @@ export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: nu
   const hi = requirePositive("limits.max", limits.max ?? 1);
   if (lo > hi) throw new EngineInputError("limits.min", "must not exceed limits.max");
   const r = solveRatio(c, qd, hd, 1, lo, hi);
-  if (r.ratio === null) {
-    return noRatio(r.status, {
+  if (r.status !== "ok") {
+    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `${fmtPct(s)} speed`) : {
       "duty-above-curve": "duty head is above the curve even at the highest allowed speed",
       "outside-curve": "duty flow falls outside the curve at every allowed speed",
       "duty-below-limit": "duty needs a speed below the lowest allowed",
-    });
+    }[r.status]);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);
@@ -235,12 +267,12 @@ export function trimForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: num
   const k = trimExponents(law).q;
   const lo = requirePositive("options.minRatio", options.minRatio ?? 0.5);
   const r = solveRatio(c, qd, hd, k, Math.min(lo, 1), 1);
-  if (r.ratio === null) {
-    return noRatio(r.status, {
+  if (r.status !== "ok") {
+    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `a diameter ratio of ${fmtPct(s)}`) : {
       "duty-above-curve": "duty head is above the full-diameter curve: trimming cannot help",
       "outside-curve": "duty flow falls outside the curve at every trim",
       "duty-below-limit": "duty needs a trim beyond the searched range",
-    });
+    }[r.status]);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,

@@ -25,6 +25,13 @@
  *   such a step at max(control head, system head) instead would price a controller that is not the mode chosen.
  *   Hence, step by step where all are met, energy: constant pressure ≥ proportional pressure ≥ system curve;
  *   a step not met drops out of the total (`complete` false), so compare totals only when complete.
+ *   Downhill (`system-curve` only: a pressure set point must be above 0): where the system's head at the step's
+ *   flow is ≤ 0, gravity alone drives at least that flow, so no pump head is needed and a valve throttles the flow
+ *   to the step's. The step (status `gravity-flow`) takes the pump as stopped, 0 kWh, and counts as met. Assumed
+ *   (common practice for gravity-fed transfer, from memory): the flow passes the stopped pump or a bypass; the
+ *   stopped pump's own loss and a check valve's are not in the system curve, so the step's text says to check that
+ *   gravity still drives the flow through them. A pump that must keep running there (a minimum speed, a process
+ *   rule) is a design matter this model does not price: its energy at that step is not counted, as the text says.
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -97,7 +104,12 @@ export const MOTOR_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.
 export const DRIVE_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.88], [0.25, 0.95], [0.5, 0.985], [0.75, 0.995], [1, 1]];
 export const PART_LOAD_SOURCE = "motor and drive part-load factors: common practice assumption (from memory of typical IE3 motor and PWM drive part-load data; check the makers' data)";
 
-export type StepStatus = "ok" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
+/** `gravity-flow`: no pump head needed at the step (system head ≤ 0), pump taken as stopped, 0 kWh; met like `ok`. */
+export type StepStatus = "ok" | "gravity-flow" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
+
+/** Steps whose energy is in the total: computed (`ok`) or no pumping needed (`gravity-flow`, 0 kWh); the others leave the cycle incomplete. */
+export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow"];
+const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);
 
 export interface StepResult {
   flowFraction: number;
@@ -131,7 +143,7 @@ export interface DutyCycleResult {
   annualEnergyKWh: number;
   /** False when a step with hours could not be computed (its energy is missing from the total). */
   complete: boolean;
-  /** Set-point head H_set, m (null at fixed speed). */
+  /** Set-point head H_set, m (null at fixed speed and under system-curve control, which has no set point). */
   setpointHead: number | null;
   warnings: EngineWarning[];
 }
@@ -187,8 +199,10 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
   if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${totalHours.toFixed(0)} h, more than a year (8784 h)`);
-  const hSet = vfd ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
-  if (hSet !== null && !(hSet > 0)) throw new EngineInputError("systemHead", "must be positive at the design flow for a pressure set point");
+  // Only the pressure modes hold a set point; system-curve control follows the system, downhill included.
+  const pressureSet = mode === "constant-pressure" || mode === "proportional-pressure";
+  const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
+  if (hSet !== null && !(hSet > 0)) throw new EngineInputError("systemHead", `must be positive at the design flow for a pressure set point (${mode}): it is ${qt("head", hSet)}; use system-curve control for a system that runs by gravity`);
   const warnings: EngineWarning[] = [];
 
   const steps = input.profile.map((s, i): StepResult => {
@@ -216,7 +230,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     } else {
       const f = q / qDesign;
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
-      if (!(head > 0)) return none("beyond-curve", `the control asks for ${qt("head", head)} at ${qt("flow", q)}: no pumping needed at this step`);
+      // Only under system-curve control (a set point is > 0): gravity drives the flow; the pump is taken as stopped (module comment).
+      if (!(head > 0)) {
+        return {
+          ...base, head: null, speedRatio: 0, efficiency: null, shaftPower: 0, loadFraction: 0, motorEfficiency: null, driveEfficiency: null, electricalPower: 0, energyKWh: 0,
+          status: "gravity-flow",
+          message: `the system needs ${qt("head", head)} at ${qt("flow", q)}, not above 0: gravity alone drives this flow and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh (assumed: the flow passes the stopped pump or a bypass — check that the stopped pump's and any check valve's loss, not in the system curve, leave gravity enough head; a pump kept running here is not counted)`,
+        };
+      }
       if (mode !== "system-curve") {
         // The control curve below the system curve at this flow: not met (see the module comment for why not max(control, system)).
         const hSys = requireFinite("systemHead", input.systemHead(q));
@@ -264,8 +285,15 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       message: lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled",
     };
   });
-  const complete = steps.every((s) => s.status === "ok" || s.hours === 0);
-  if (!complete) warnings.push({ code: "cycle-incomplete", message: "some steps with running hours cannot be met by this pump or on this control curve: their energy is missing from the total" });
+  const complete = steps.every((s) => stepCounted(s) || s.hours === 0);
+  if (!complete) {
+    const missing = steps.filter((s) => !stepCounted(s) && s.hours > 0);
+    const notComputed = missing.filter((s) => s.status === "no-power-data").length;
+    const notMet = missing.length - notComputed;
+    const of = (n: number) => `${n} of ${steps.length} step${steps.length === 1 ? "" : "s"} with running hours`;
+    const parts = [notMet > 0 ? `${of(notMet)} not met by this pump or on this control curve` : "", notComputed > 0 ? `${of(notComputed)} not computed (the curve has no power data there)` : ""].filter(Boolean);
+    warnings.push({ code: "cycle-incomplete", message: `${parts.join("; ")}: their energy is missing from the total` });
+  }
   const annualEnergyKWh = steps.reduce((sum, s) => sum + (s.energyKWh ?? 0), 0);
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

@@ -34,3 +34,42 @@ describe("life-cycle cost (present value, ISO 15686-5 method from memory; common
     }
   });
 });
+
+describe("an implausible tariff escalation is warned about, with its rule and numbers (the cost is still computed)", () => {
+  const lcc = (escalation: number, years: number) => lifeCycleCost({ purchasePrice: 1000, annualEnergyKWh: 10_000, tariffPerKWh: 0.2, years, escalation, discountRate: 0.05 });
+  const codes = (escalation: number, years: number) => (lcc(escalation, years).warnings ?? []).map((w) => w.code);
+
+  it("+100 %/year over 50 years: year 50's tariff is 2^49 ≈ 5.6e14 × year 1's (hand calculation)", () => {
+    const r = lcc(1, 50);
+    expect(r.warnings).toHaveLength(1);
+    expect(r.warnings![0]).toMatchObject({ code: "implausible-escalation", parameter: "escalation" });
+    expect(r.warnings![0].message).toMatch(/^tariff escalation 100\.0 %\/year makes year 50's energy cost 5\.6e14 × year 1's \(above 15 %\/year; more than 10× year 1's\): implausible/);
+    expect(r.warnings![0].message).toMatch(/rule, common practice from memory: within ±15 %\/year and year 50's tariff within 1\/10–10× year 1's/);
+    expect(r.total).toBeGreaterThan(1e10); // computed all the same
+  });
+  it("the default 3 %/year over 15 years (1.03^14 ≈ 1.51×) and over 50 years (1.03^49 ≈ 4.26×) say nothing", () => {
+    expect(codes(0.03, 15)).toEqual([]);
+    expect(codes(0.03, 50)).toEqual([]);
+  });
+  it("the rate rule flips at 15 %/year (2 years, so the growth is only 1.15×)", () => {
+    expect(codes(0.15, 2)).toEqual([]);
+    expect(codes(0.15 + 1e-9, 2)).toEqual([]); // within print rounding of the bound: it would read "15.000000 %"
+    expect(codes(0.15 + 1e-6, 2)).toEqual(["implausible-escalation"]);
+    expect(lcc(0.15 + 1e-6, 2).warnings![0].message).toMatch(/^tariff escalation 15\.0001 %\/year makes year 2's energy cost 1\.15 × year 1's \(above 15 %\/year\)/);
+    expect(codes(-0.15, 2)).toEqual([]);
+    expect(lcc(-0.15 - 1e-6, 2).warnings![0].message).toMatch(/^tariff escalation -15\.0001 %\/year .*\(below −15 %\/year\)/);
+  });
+  it("the growth rule flips where year 50's tariff reaches 10× year 1's: e = 10^(1/49) − 1 ≈ 4.81 %/year (hand algebra)", () => {
+    const e = 10 ** (1 / 49) - 1;
+    expect(codes(e - 1e-6, 50)).toEqual([]);
+    const w = lcc(e + 1e-6, 50).warnings!;
+    expect(w.map((x) => x.code)).toEqual(["implausible-escalation"]);
+    const shown = /makes year 50's energy cost ([\d.]+) × year 1's \(more than 10× year 1's\)/.exec(w[0].message)?.[1];
+    expect(Number(shown)).toBeGreaterThan(10); // printed apart from the limit 10 (fmtNumExact), never "10.0"
+    // falling: below a tenth of year 1's, e = 10^(−1/49) − 1 ≈ −4.59 %/year
+    const f = 10 ** (-1 / 49) - 1;
+    expect(codes(f + 1e-6, 50)).toEqual([]);
+    expect(lcc(f - 1e-6, 50).warnings![0].message).toMatch(/\(less than 1\/10 of year 1's\)/);
+  });
+  it("a single year has no escalation to judge", () => expect(codes(1, 1)).toEqual([]));
+});

@@ -9,10 +9,23 @@
  * life-cycle-cost guides' LCC = initial cost + energy + … (common practice). Maintenance, downtime and
  * disposal are left out here. Validity: N 1–50 years, e −50…+100 %/year, d 0…100 %/year; money in the
  * workspace's currency (any one currency: the formula is unit-free).
+ *
+ * Plausibility (a warning, the cost is still computed): an escalation held over the whole period compounds, and at
+ * the accepted extremes it decides the result alone (+100 %/year over 50 years: year 50's tariff 2^49 ≈ 5.6e14 ×
+ * year 1's). Rule, common practice (from memory: life-cycle cost studies assume energy-price escalation of a few
+ * per cent a year, which over decades compounds to a few times year 1's tariff, not orders of magnitude): beyond
+ * ±15 %/year (`ESCALATION_PLAUSIBLE.rate`), or a tariff in the last year more than 10× year 1's or below a tenth of
+ * it (`ESCALATION_PLAUSIBLE.growth`), the escalation is called implausible, with its numbers. (A 5× bound would flag
+ * 3.5 %/year over 50 years, about the pace of nominal tariffs over past decades; 10× is first crossed at 4.8 %/year
+ * over 50 years, 17.9 %/year over 15.)
  */
-import { EngineInputError, requireFinite, requireInteger, requireNonNegative } from "./errors.ts";
+import { EngineInputError, requireFinite, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
+import { fmtNumExact, fmtPctExact, fmtPctLimit } from "./quantityText.ts";
 
 export const LCC_SOURCE = "present-value method (ISO 15686-5, from memory; common practice for pump life-cycle cost): LCC = purchase + Σ C₁(1+e)^(t−1)/(1+d)^t, end-of-year costs; maintenance and disposal not included";
+
+/** Bounds of a plausible tariff escalation (common practice, from memory; module comment): the yearly rate, and the last year's tariff over year 1's. */
+export const ESCALATION_PLAUSIBLE = { rate: 0.15, growth: 10 } as const;
 
 export interface LifeCycleInput {
   /** Purchase price (currency), null when not given (counted as 0, said in the result). */
@@ -40,6 +53,38 @@ export interface LifeCycleResult {
   /** Cumulative present-value cost at the end of year 0…N (year 0: the purchase). */
   cumulative: number[];
   source: string;
+  /** Plausibility warnings (`implausible-escalation`), each with its rule and numbers. Absent in selections frozen before 2026-12-03. */
+  warnings?: EngineWarning[];
+}
+
+/** A growth factor as read beside its limits: "5.6e14", "7.07", "0.19" (far from 1: powers of ten). */
+function factorText(g: number): string {
+  if (g >= 1000 || g < 0.001) return g.toExponential(1).replace("e+", "e");
+  return fmtNumExact(g, [ESCALATION_PLAUSIBLE.growth, 1 / ESCALATION_PLAUSIBLE.growth]);
+}
+
+/**
+ * The escalation's plausibility over the period (rule in the module comment): none for a single year, where it
+ * changes nothing. The message names the rate, the last year's tariff as a multiple of year 1's and the bound crossed.
+ */
+function escalationWarnings(escalation: number, years: number): EngineWarning[] {
+  if (years < 2) return [];
+  const { rate, growth } = ESCALATION_PLAUSIBLE;
+  const g = (1 + escalation) ** (years - 1);
+  // A value within print rounding of its bound is the bound (1e-7 of the rate, 1e-9 of the growth: fmtPctExact shows up to
+  // 6 decimals of a per cent, fmtNumExact 9 digits), so a value called beyond it always prints apart from it.
+  const rateOut = Math.abs(escalation) > rate * (1 + 1e-7);
+  const growthOut = g > growth * (1 + 1e-9) || g < (1 / growth) * (1 - 1e-9);
+  if (!rateOut && !growthOut) return [];
+  const crossed = [
+    rateOut ? `${escalation > 0 ? "above" : "below"} ${escalation > 0 ? "" : "−"}${fmtPctLimit(rate)}/year` : "",
+    growthOut ? (g > growth ? `more than ${growth}× year 1's` : `less than 1/${growth} of year 1's`) : "",
+  ].filter(Boolean).join("; ");
+  return [{
+    code: "implausible-escalation",
+    parameter: "escalation",
+    message: `tariff escalation ${fmtPctExact(escalation, [rate, -rate])}/year makes year ${years}'s energy cost ${factorText(g)} × year 1's (${crossed}): implausible as a forecast (rule, common practice from memory: within ±${fmtPctLimit(rate)}/year and year ${years}'s tariff within 1/${growth}–${growth}× year 1's); the life-cycle cost's energy part rests on it — check the escalation`,
+  }];
 }
 
 /**
@@ -69,5 +114,5 @@ export function lifeCycleCost(input: LifeCycleInput): LifeCycleResult {
     yearly.push({ year: t, energyCost, presentValue });
     cumulative.push(purchase + pv);
   }
-  return { purchase, purchaseGiven, yearly, energyPresentValue: pv, total: purchase + pv, cumulative, source: LCC_SOURCE };
+  return { purchase, purchaseGiven, yearly, energyPresentValue: pv, total: purchase + pv, cumulative, source: LCC_SOURCE, warnings: escalationWarnings(e, years) };
 }

@@ -16,6 +16,7 @@ import {
   PART_LOAD_SOURCE,
   prepareSystem,
   scaleBySpeed,
+  COUNTED_STEP_STATUSES,
   systemHeadFunction,
   type ControlMode,
   type DutyCycleResult,
@@ -179,10 +180,29 @@ export function candidateEnergy(
 /** A duty cycle as computed or frozen: its steps and the engine's warnings (frozen before warnings named their step: no `parameter`). */
 type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?: string | null; code?: string | null; message: string }[] };
 
-/** How a step that is not "ok" reads at the step: not met (the pump or the control cannot reach it) or not computed (no data). */
+/**
+ * How a step that is not "ok" reads at the step: met by gravity with the pump stopped (no pump head needed, 0 kWh, counted),
+ * not computed (no data) or not met (the pump or the control cannot reach it).
+ */
 export function stepVerdict(s: { status: string }): string {
   if (s.status === "ok") return "";
+  if (s.status === "gravity-flow") return "met by gravity, pump stopped";
   return s.status === "no-power-data" ? "not computed" : "not met";
+}
+
+/** The steps with hours whose energy is missing from the total: not met, and not computed (no power data). */
+export function missingSteps(cycle: { steps: readonly { status: string; hours: number }[] }): { notMet: number; notComputed: number } {
+  const missing = cycle.steps.filter((s) => !(COUNTED_STEP_STATUSES as readonly string[]).includes(s.status) && s.hours > 0);
+  const notComputed = missing.filter((s) => s.status === "no-power-data").length;
+  return { notMet: missing.length - notComputed, notComputed };
+}
+
+/** Why a cycle is incomplete, in the words its steps use: "1 of 4 steps not met", "2 of 4 steps not met, 1 not computed", "1 of 4 steps not computed". */
+export function missingStepsText(cycle: { steps: readonly { status: string; hours: number }[] }): string {
+  const { notMet, notComputed } = missingSteps(cycle);
+  const of = `of ${cycle.steps.length} step${cycle.steps.length === 1 ? "" : "s"}`;
+  if (notMet > 0) return `${notMet} ${of} not met${notComputed > 0 ? `, ${notComputed} not computed` : ""}`;
+  return `${notComputed} ${of} not computed`;
 }
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */

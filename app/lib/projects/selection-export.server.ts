@@ -1,7 +1,7 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./selections.server";
 import { toCsv } from "../shared/csv";
-import { cycleWarnings, stepVerdict, stepWarnings } from "./energy";
+import { cycleWarnings, missingSteps, missingStepsText, stepVerdict, stepWarnings } from "./energy";
 
 const row = (xs: unknown[]) => xs;
 
@@ -124,12 +124,13 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   add("cycle_error", e.cycleError, "");
   const c = e.cycle;
   if (c) {
-    const notMet = c.steps.filter((st) => st.status !== "ok" && st.hours > 0).length;
+    const { notMet, notComputed } = missingSteps(c);
     add("cycle_total_hours", c.totalHours, "h");
     add("cycle_annual_energy_electrical", c.annualEnergyKWh, "kWh");
     add("cycle_complete", c.complete, "");
     add("cycle_steps_not_met", notMet, "");
-    if (!c.complete) add("cycle_incomplete_note", `incomplete: ${notMet} of ${c.steps.length} steps not met; their energy is missing from the total, the energy cost and the life-cycle cost`, "");
+    add("cycle_steps_not_computed", notComputed, "");
+    if (!c.complete) add("cycle_incomplete_note", `incomplete: ${missingStepsText(c)}; their energy is missing from the total, the energy cost and the life-cycle cost`, "");
     cycleWarnings(c).forEach((w, i) => add(`cycle_warning_${i + 1}`, w, ""));
   }
   add("cycle_energy_cost_per_year", e.annualCost, currency);
@@ -139,4 +140,5 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   add("lcc_energy_present_value", e.lcc?.energyPresentValue ?? null, currency);
   add("lcc_years", e.lcc ? e.lcc.yearly.length : null, "years");
   add("lcc_source", e.lcc?.source ?? null, "");
+  (e.lcc?.warnings ?? []).forEach((w, i) => add(`lcc_warning_${i + 1}`, w.message, ""));
 }

@@ -1,0 +1,85 @@
+// Numbers of the energy display (duty cycle, energy cost, life-cycle cost), pure: money to its currency's minor unit,
+// and a column of step values (kWh, hours) printed at one precision with its total, so that the rows add up to the
+// total as printed, or the total says they do not. Money here is a computed amount in the workspace's currency (a
+// float); shared/format.ts's fmtMoney is for integer cents from billing and stays as it is.
+
+const MINOR_DIGITS = new Map<string, number>();
+
+/**
+ * Digits of a currency's minor unit: EUR and GBP 2, JPY 0, BHD 3 (ISO 4217, as Intl.NumberFormat's currency data gives
+ * them: resolvedOptions().maximumFractionDigits); 2 for a code Intl does not take or a currency not set.
+ */
+export function currencyMinorDigits(currency: string): number {
+  const code = (currency ?? "").trim().toUpperCase();
+  let d = MINOR_DIGITS.get(code);
+  if (d === undefined) {
+    try {
+      d = new Intl.NumberFormat("en", { style: "currency", currency: code }).resolvedOptions().maximumFractionDigits ?? 2;
+    } catch {
+      d = 2; // not an ISO 4217 code (or none): cents, the common case
+    }
+    MINOR_DIGITS.set(code, d);
+  }
+  return d;
+}
+
+const unitOf = (currency: string) => currency || "(currency not set)";
+const unsignedZero = (t: string) => (/^-0(\.0+)?$/.test(t) ? t.slice(1) : t);
+
+/**
+ * An amount of money to its currency's minor unit: 0.4 EUR → "0.40 EUR", 12.5 → "12.50 EUR", 1234 JPY → "1234 JPY".
+ * An amount that is not zero but below the minor unit says so ("under 0.01 EUR"), never a false "0.00"; "—" when missing.
+ */
+export function moneyText(x: number | null | undefined, currency: string): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  const d = currencyMinorDigits(currency);
+  const t = unsignedZero(x.toFixed(d));
+  if (x !== 0 && Number(t) === 0) return `${x < 0 ? "above −" : "under "}${(10 ** -d).toFixed(d)} ${unitOf(currency)}`;
+  return `${t} ${unitOf(currency)}`;
+}
+
+/** Whether amounts printed at `d` decimals add up, as printed, to their total printed alike. */
+export function addsUpAsPrinted(parts: readonly number[], total: number, d: number): boolean {
+  const units = (x: number) => Math.round(Number(x.toFixed(d)) * 10 ** d);
+  return parts.reduce((s, x) => s + units(x), 0) === units(total);
+}
+
+/** The note after a sum of money whose parts, each rounded to the minor unit, do not add up to its total as printed ("" when they do). */
+export function moneySumNote(parts: readonly number[], total: number, currency: string): string {
+  const d = currencyMinorDigits(currency);
+  return addsUpAsPrinted(parts, total, d) ? "" : ` (each rounded to ${(10 ** -d).toFixed(d)} ${unitOf(currency)}, so the parts as printed differ from the total by the rounding)`;
+}
+
+/** Significant digits a column's smallest value keeps (common practice for a table of estimates: three). */
+const SIGNIFICANT = 3;
+const MAX_DECIMALS = 6;
+const decimalsFor = (x: number) => Math.min(MAX_DECIMALS, Math.max(0, SIGNIFICANT - 1 - Math.floor(Math.log10(Math.abs(x)))));
+
+export type Column = { rows: string[]; total: string; decimals: number; addsUp: boolean };
+
+/**
+ * Step values and their total at one precision: enough decimals for the smallest value that is not zero to keep three
+ * significant digits (at most 6), less any the whole column only fills with zeros. So 0.283 kWh shows as 0.283, not 0,
+ * and beside 1760 kWh the rows stay whole. `addsUp`: the rows as printed add up to the total as printed (a missing row
+ * counts nothing); when they do not, the page says the rows are rounded.
+ * @param rows the steps' values (null: not computed, printed "—")
+ * @param total their total
+ */
+export function column(rows: readonly (number | null)[], total: number): Column {
+  const all = [...rows.filter((x): x is number => x != null && Number.isFinite(x)), total].filter((x) => Number.isFinite(x));
+  const nonzero = all.filter((x) => x !== 0);
+  let d = nonzero.length ? Math.max(...nonzero.map(decimalsFor)) : 0;
+  while (d > 0 && all.every((x) => Number(x.toFixed(d - 1)) === Number(x.toFixed(d)))) d--;
+  const text = (x: number | null) => (x == null || !Number.isFinite(x) ? "—" : unsignedZero(x.toFixed(d)));
+  const counted = rows.filter((x): x is number => x != null && Number.isFinite(x));
+  return { rows: rows.map(text), total: text(total), decimals: d, addsUp: addsUpAsPrinted(counted, total, d) };
+}
+
+/** The rows as printed, added up, at the column's precision (for the note beside a total they do not reach). */
+export function printedSum(c: Column): string {
+  const sum = c.rows.filter((t) => t !== "—").reduce((s, t) => s + Math.round(Number(t) * 10 ** c.decimals), 0) / 10 ** c.decimals;
+  return unsignedZero(sum.toFixed(c.decimals));
+}
+
+/** One quantity (kWh, hours) with three significant digits when small, whole from 100 up: 0.283, 3.59, 42.1, 1760. */
+export const amountText = (x: number | null | undefined): string => (x == null || !Number.isFinite(x) ? "—" : column([], x).total);
