@@ -448,14 +448,24 @@ export const rateLimits = mysqlTable(
 );
 
 // ── Billing ─────────────────────────────────────────────────────────────────────────────────
-/** Every Stripe event handled, by id: a replayed event is recognised and changes nothing. */
-export const stripeEvents = mysqlTable("stripe_events", {
-  id: varchar("id", { length: 80 }).primaryKey(),
-  type: varchar("type", { length: 80 }).notNull(),
-  workspaceId: ref("workspace_id"),
-  eventCreatedAt: datetime("event_created_at", { mode: "date" }).notNull(),
-  processedAt: createdAt(),
-});
+/**
+ * Every Stripe event handled, by id: a replayed event is recognised and changes nothing. An event naming a
+ * subscription keeps its id; a subscription event also the status it states (deleted: canceled), so that
+ * events of one subscription are ordered among themselves (billing/webhook.server.ts).
+ */
+export const stripeEvents = mysqlTable(
+  "stripe_events",
+  {
+    id: varchar("id", { length: 80 }).primaryKey(),
+    type: varchar("type", { length: 80 }).notNull(),
+    workspaceId: ref("workspace_id"),
+    eventCreatedAt: datetime("event_created_at", { mode: "date" }).notNull(),
+    subscriptionId: varchar("subscription_id", { length: 80 }),
+    subscriptionStatus: varchar("subscription_status", { length: 32 }),
+    processedAt: createdAt(),
+  },
+  (t) => [index("stripe_events_subscription_idx").on(t.workspaceId, t.subscriptionId)],
+);
 
 // ── Field checks ────────────────────────────────────────────────────────────────────────────
 /** A project shared with another workspace (e.g. the contractor commissioning it). */

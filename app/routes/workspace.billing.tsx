@@ -11,6 +11,7 @@ import {
   AlreadySubscribed,
   billingErrorMessage,
   billingState,
+  billingView,
   listInvoices,
   PLAN_NAMES,
   PLAN_SUMMARY,
@@ -56,7 +57,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     status: state.status,
     periodEnd: state.currentPeriodEnd,
     cancelAtPeriodEnd: state.cancelAtPeriodEnd,
-    hasSubscription: Boolean(state.subscriptionId && state.status && ["active", "trialing"].includes(state.status)),
+    // hasSubscription, canUpgrade, canChangeCancel, renews, notice: what the state offers and says (subscription-states.ts).
+    ...billingView(state, manage),
     hasCustomer: Boolean(state.customerId),
     invoices: invoiceRead.rows,
     invoicesError: invoiceRead.error as string | null,
@@ -161,17 +163,19 @@ export default function Billing() {
           Current plan: <span data-testid="plan-name">{d.planName}</span>
         </h2>
         <p className="text-sm text-slate-700">{d.summary}</p>
-        {d.plan === "network" && d.periodEnd ? (
-          d.cancelAtPeriodEnd ? (
-            <p className="caution">
-              Ends on {fmtDate(d.periodEnd)}. Shared libraries stay open until then; afterwards they lock again, and selections saved earlier keep
-              their frozen curves.
-            </p>
-          ) : (
-            <p className="text-sm text-slate-600">Renews on {fmtDate(d.periodEnd)}.</p>
-          )
+        {d.plan === "network" && d.periodEnd && d.cancelAtPeriodEnd ? (
+          <p className="caution">
+            Ends on {fmtDate(d.periodEnd)}. Shared libraries stay open until then; afterwards they lock again, and selections saved earlier keep their
+            frozen curves.
+          </p>
+        ) : d.renews && d.periodEnd ? (
+          <p className="text-sm text-slate-600">Renews on {fmtDate(d.periodEnd)}.</p>
         ) : null}
-        {d.status && d.status !== "active" && d.status !== "canceled" ? <p className="caution">Payment state at Stripe: {d.status}.</p> : null}
+        {d.notice ? (
+          <p className="caution" data-testid="subscription-notice">
+            {d.notice}
+          </p>
+        ) : null}
       </section>
 
       {d.manage ? (
@@ -179,7 +183,7 @@ export default function Billing() {
           <h2 id="change-h" className="text-lg font-semibold">
             Change the plan
           </h2>
-          {d.plan === "free" ? (
+          {d.canUpgrade ? (
             <Form method="post" className="space-y-2">
               <PageWorkspaceField id={d.workspace.id} />
               <p className="text-sm text-slate-700">
@@ -190,30 +194,35 @@ export default function Billing() {
                 Upgrade to {d.paid.name}
               </button>
             </Form>
-          ) : d.hasSubscription ? (
-            <div className="flex flex-wrap gap-2">
-              <Form method="post">
-                <PageWorkspaceField id={d.workspace.id} />
-                {d.cancelAtPeriodEnd ? (
-                  <button className="btn" name="intent" value="resume" disabled={busy}>
-                    Keep {d.paid.name}
-                  </button>
-                ) : (
-                  <button className="btn-quiet" name="intent" value="cancel" disabled={busy}>
-                    Cancel at the end of the period
-                  </button>
-                )}
-              </Form>
-              <Form method="post">
-                <PageWorkspaceField id={d.workspace.id} />
-                <button className="btn-quiet" name="intent" value="portal" disabled={busy}>
-                  Payment details on Stripe
-                </button>
-              </Form>
-            </div>
-          ) : (
+          ) : d.plan === "network" && !d.hasSubscription ? (
             <p className="text-sm text-slate-600">This workspace's {d.paid.name} plan was granted without a subscription; nothing to change here.</p>
-          )}
+          ) : null}
+          {d.canChangeCancel || d.hasCustomer ? (
+            <div className="flex flex-wrap gap-2">
+              {d.canChangeCancel ? (
+                <Form method="post">
+                  <PageWorkspaceField id={d.workspace.id} />
+                  {d.cancelAtPeriodEnd ? (
+                    <button className="btn" name="intent" value="resume" disabled={busy}>
+                      Keep {d.paid.name}
+                    </button>
+                  ) : (
+                    <button className="btn-quiet" name="intent" value="cancel" disabled={busy}>
+                      Cancel at the end of the period
+                    </button>
+                  )}
+                </Form>
+              ) : null}
+              {d.hasCustomer ? (
+                <Form method="post">
+                  <PageWorkspaceField id={d.workspace.id} />
+                  <button className="btn-quiet" name="intent" value="portal" disabled={busy}>
+                    Payment details on Stripe
+                  </button>
+                </Form>
+              ) : null}
+            </div>
+          ) : null}
         </section>
       ) : (
         <div className="space-y-1">

@@ -5,7 +5,7 @@ import { db } from "@db/client.server";
 import { stripeEvents, workspaces } from "@db/schema";
 import { call, makeMember } from "~/test/harness";
 import * as webhookRoute from "~/routes/api.stripe.webhook";
-import { handleStripeWebhook } from "./billing.server";
+import { handleStripeWebhook } from "./webhook.server";
 import { kit, useBillingStandIn, ws, subscribe, signed, subscriptionEvent, post, customerWorkspace } from "./test-kit";
 
 useBillingStandIn();

@@ -2,17 +2,19 @@
 // calculations, projects) and Network (paid: every shared library opens; the gate itself is
 // `planOpensShared` in libraries.server.ts). The plan belongs to the workspace.
 //
-// Stripe through its Node SDK. Configuration only decides where the SDK points:
-//   STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET, STRIPE_PRICE_ID (default price_dutymark_network_monthly),
+// Stripe through its Node SDK. Configuration only decides where the SDK points and which prices are the plan's:
+//   STRIPE_SECRET_KEY, STRIPE_WEBHOOK_SECRET, STRIPE_PRICE_ID (default price_dutymark_network_monthly: what
+//   checkout sells), STRIPE_PRICE_IDS_HONOURED (older prices whose subscriptions still open the plan),
 //   STRIPE_API_BASE (set → the local stand-in in fixtures/stripe; unset → api.stripe.com).
-// Only verified webhooks change a plan (handleStripeWebhook); the checkout success redirect never does.
+// Only verified webhooks change a plan (webhook.server.ts); the checkout success redirect never does.
+// One subscription per workspace: checkout is refused while the customer has a live one at Stripe.
 import Stripe from "stripe";
-import { and, eq, gt, inArray, sql } from "drizzle-orm";
-import { db, withTransaction, type Db } from "@db/client.server";
-import { forgetTokens } from "../auth/token-cache.server";
-import { stripeEvents, workspaces } from "@db/schema";
+import { and, eq, sql } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { workspaces } from "@db/schema";
 import type { WorkspaceInfo } from "../auth/guards.server";
 import { settings } from "../shared/env.server";
+import { OPENS_PLAN, isLive } from "./subscription-states";
 
 export type Plan = WorkspaceInfo["plan"];
 
@@ -25,11 +27,12 @@ export const PLAN_SUMMARY: Record<Plan, string> = {
 export const DEFAULT_PRICE_ID = "price_dutymark_network_monthly";
 
 // ── Configuration and the SDK client ─────────────────────────────────────────────────────────
-export type StripeConfig = { secretKey: string; webhookSecret: string; priceId: string; apiBase: string | null };
+export type StripeConfig = { secretKey: string; webhookSecret: string; priceId: string; honouredPriceIds: string[]; apiBase: string | null };
 
 export function stripeConfig(env: NodeJS.ProcessEnv = process.env): StripeConfig {
   const s = settings(env).stripe;
-  return { ...s, priceId: s.priceId ?? DEFAULT_PRICE_ID };
+  const priceId = s.priceId ?? DEFAULT_PRICE_ID;
+  return { ...s, priceId, honouredPriceIds: [...new Set([priceId, ...s.honouredPriceIds])] };
 }
 
 /** SDK options: with STRIPE_API_BASE the SDK talks to that host (the stand-in); without, the SDK's defaults (Stripe). */
@@ -108,13 +111,51 @@ export async function ensureCustomer(ws: { id: number; name: string }, email: st
   return after!.customerId!;
 }
 
+/** Checkout refused: the workspace is subscribed, or its customer already has a live subscription at Stripe. */
 export class AlreadySubscribed extends Error {}
 
-/** A Checkout Session in subscription mode for the Network plan; returns the hosted page's URL. */
+const PORTAL_HINT = "Fix or change it under “Payment details on Stripe” instead of starting another checkout (a second subscription would be charged as well).";
+
+/** The customer's first subscription at Stripe that is not ended (any status but canceled and incomplete_expired). */
+async function liveSubscriptionOf(customer: string): Promise<Stripe.Subscription | null> {
+  // Without `status`, Stripe lists every subscription not canceled; the SDK pages through them.
+  for await (const sub of stripe().subscriptions.list({ customer, limit: 100 })) if (isLive(sub.status)) return sub;
+  return null;
+}
+
+/** Expires the customer's open Checkout Sessions, so that no earlier checkout can still be paid. */
+async function expireOpenCheckouts(customer: string): Promise<void> {
+  for await (const s of stripe().checkout.sessions.list({ customer, status: "open", limit: 100 })) {
+    try {
+      await stripe().checkout.sessions.expire(s.id);
+    } catch (e) {
+      // Completed or expired in the meantime: no longer payable. The live-subscription check below sees a completed one.
+      if (!(e instanceof Stripe.errors.StripeInvalidRequestError)) throw e;
+    }
+  }
+}
+
+/**
+ * A Checkout Session in subscription mode for the Network plan; returns the hosted page's URL. Refused while
+ * our row shows a live subscription, or Stripe lists one for the customer (our row may lag: a webhook not
+ * landed yet, a subscription made elsewhere). The customer's earlier open sessions are expired first, so two
+ * checkouts opened before paying cannot make two subscriptions. Two admins pressing Upgrade in the same
+ * moment can still each get a session (neither sees the other's); Stripe then has two open, and paying both
+ * would make two subscriptions — the webhook keeps the first and records the second (webhook.server.ts).
+ */
 export async function startCheckout(ws: { id: number; name: string }, email: string, appUrl: string): Promise<string> {
   const state = await billingState(ws.id);
-  if (state.plan === "network" && state.status && ACTIVE.has(state.status)) throw new AlreadySubscribed("This workspace is already on the Network plan.");
+  if (state.subscriptionId && isLive(state.status)) {
+    throw new AlreadySubscribed(
+      state.plan === "network" && OPENS_PLAN.has(state.status)
+        ? "This workspace is already on the Network plan."
+        : `This workspace's subscription at Stripe is ${state.status}. ${PORTAL_HINT}`,
+    );
+  }
   const customer = await ensureCustomer(ws, email);
+  await expireOpenCheckouts(customer);
+  const live = await liveSubscriptionOf(customer);
+  if (live) throw new AlreadySubscribed(`This workspace already has a subscription at Stripe (${live.id}, ${live.status}). ${PORTAL_HINT}`);
   const session = await stripe().checkout.sessions.create({
     mode: "subscription",
     customer,
@@ -132,7 +173,7 @@ export async function startCheckout(ws: { id: number; name: string }, email: str
 /** Asks Stripe to end (or keep) the subscription at the close of the period. The webhook records the answer. */
 export async function setCancelAtPeriodEnd(workspaceId: number, cancel: boolean) {
   const state = await billingState(workspaceId);
-  if (!state.subscriptionId || !state.status || !ACTIVE.has(state.status)) return { ok: false as const, reason: "There is no running subscription to change." };
+  if (!state.subscriptionId || !state.status || !OPENS_PLAN.has(state.status)) return { ok: false as const, reason: "There is no running subscription to change." };
   const sub = await stripe().subscriptions.update(state.subscriptionId, { cancel_at_period_end: cancel });
   return { ok: true as const, periodEnd: periodEndOf(sub) };
 }
@@ -159,176 +200,8 @@ export async function listInvoices(customerId: string): Promise<InvoiceRow[]> {
   }));
 }
 
-// ── Webhook ──────────────────────────────────────────────────────────────────────────────────
-/** Subscription states that keep the Network plan open (Stripe API docs: Subscriptions, "Subscription statuses"). */
-const ACTIVE = new Set(["active", "trialing"]);
-/** States that end it. past_due / incomplete leave the plan as it is (Stripe retries the payment). */
-const ENDED = new Set(["canceled", "unpaid", "incomplete_expired", "paused"]);
-
 /** Since API 2025-03-31.basil the billing period lives on the subscription item. */
-function periodEndOf(sub: Stripe.Subscription): Date | null {
+export function periodEndOf(sub: Stripe.Subscription): Date | null {
   const t = sub.items?.data?.[0]?.current_period_end;
   return typeof t === "number" ? new Date(t * 1000) : null;
-}
-
-const idOf = (x: string | { id: string } | null | undefined): string | null => (x == null ? null : typeof x === "string" ? x : x.id);
-
-function workspaceIdFrom(...candidates: (string | null | undefined)[]): number | null {
-  for (const c of candidates) if (c && /^\d{1,15}$/.test(c)) return Number(c);
-  return null;
-}
-
-export type WebhookOutcome = { status: number; body: Record<string, unknown>; problem?: boolean };
-
-const bad = (detail: string): WebhookOutcome => ({ status: 400, problem: true, body: { type: "about:blank", title: "Bad Request", status: 400, detail } });
-
-const HANDLED = new Set(["checkout.session.completed", "customer.subscription.created", "customer.subscription.updated", "customer.subscription.deleted", "invoice.paid"]);
-/** Events that set the subscription's state; an older one of these never overwrites a newer one (Stripe does not guarantee order). */
-const STATEFUL = ["checkout.session.completed", "customer.subscription.created", "customer.subscription.updated", "customer.subscription.deleted"];
-
-/**
- * Verifies and applies one webhook delivery. The event id is stored in the same transaction as the
- * change, inserted first: a second delivery of the same event hits the primary key and changes nothing.
- */
-export async function handleStripeWebhook(rawBody: string, signature: string | null): Promise<WebhookOutcome> {
-  const cfg = stripeConfig();
-  if (!cfg.webhookSecret) return { status: 503, problem: true, body: { type: "about:blank", title: "Service Unavailable", status: 503, detail: "Webhooks are not set up on this server." } };
-  if (!signature) return bad("Missing Stripe-Signature header.");
-  let event: Stripe.Event;
-  try {
-    // Default tolerance 300 s: a signature older than that is refused (Stripe docs: "Prevent replay attacks").
-    event = Stripe.webhooks.constructEvent(rawBody, signature, cfg.webhookSecret);
-  } catch (e) {
-    if (e instanceof Stripe.errors.StripeSignatureVerificationError) return bad(`Signature check failed: ${e.message}`);
-    return bad("The body is not a Stripe event.");
-  }
-  // Signed is not the same as well-formed: the columns hold ids and types up to 80 characters.
-  if (typeof event.id !== "string" || !event.id || event.id.length > 80 || typeof event.type !== "string" || event.type.length > 80 || !Number.isFinite(event.created)) {
-    return bad("The event's id, type or created time is missing or too long.");
-  }
-  const target = await locate(event);
-  try {
-    // A plan change must reach cached API callers (token-cache.server.ts) once committed.
-    return await withTransaction(async (tx) => {
-      // Lock order: the workspace row first (serialises events of one workspace), then the event id.
-      const [w] = target ? await tx.select().from(workspaces).where(eq(workspaces.id, target.workspaceId)).for("update") : [];
-      await tx.insert(stripeEvents).values({ id: event.id, type: event.type, workspaceId: w?.id ?? null, eventCreatedAt: new Date(event.created * 1000) });
-      if (!HANDLED.has(event.type)) return { status: 200, body: { received: true, result: "ignored", type: event.type } };
-      if (!target || !w) return { status: 200, body: { received: true, result: "no workspace for this event" } };
-      const result = await apply(tx, event, target, w);
-      return { status: 200, body: { received: true, result } };
-    }).finally(forgetTokens);
-  } catch (e) {
-    if (isDuplicateKey(e)) return { status: 200, body: { received: true, result: "already handled" } };
-    throw e;
-  }
-}
-
-function isDuplicateKey(e: unknown): boolean {
-  for (let x = e as { errno?: number; code?: string; cause?: unknown } | undefined, i = 0; x && i < 4; x = x.cause as typeof x, i++) {
-    if (x.errno === 1062 || x.code === "ER_DUP_ENTRY") return true;
-  }
-  return false;
-}
-
-type Target = { workspaceId: number; subscriptionId: string | null; customerId: string | null };
-
-/** Which workspace an event belongs to: our id in metadata / client_reference_id, else the customer we stored. */
-async function locate(event: Stripe.Event): Promise<Target | null> {
-  let wsId: number | null = null;
-  let customerId: string | null = null;
-  let subscriptionId: string | null = null;
-  const o = event.data.object as unknown as Record<string, unknown>;
-  if (event.type === "checkout.session.completed") {
-    const s = event.data.object as Stripe.Checkout.Session;
-    wsId = workspaceIdFrom(s.client_reference_id, s.metadata?.workspace_id);
-    customerId = idOf(s.customer);
-    subscriptionId = idOf(s.subscription);
-  } else if (event.type.startsWith("customer.subscription.")) {
-    const s = event.data.object as Stripe.Subscription;
-    wsId = workspaceIdFrom(s.metadata?.workspace_id);
-    customerId = idOf(s.customer);
-    subscriptionId = s.id;
-  } else if (event.type.startsWith("invoice.")) {
-    const inv = event.data.object as Stripe.Invoice;
-    customerId = idOf(inv.customer);
-    subscriptionId = idOf(inv.parent?.subscription_details?.subscription ?? null);
-  } else if (typeof o.customer === "string") {
-    customerId = o.customer;
-  }
-  if (customerId) {
-    const [byCustomer] = await db().select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.stripeCustomerId, customerId));
-    // The stored customer wins over metadata: metadata is ours, but a customer id cannot be moved between workspaces.
-    if (byCustomer) wsId = byCustomer.id;
-    else if (wsId != null) {
-      const [w] = await db().select({ customerId: workspaces.stripeCustomerId }).from(workspaces).where(eq(workspaces.id, wsId));
-      if (!w || (w.customerId && w.customerId !== customerId)) wsId = null;
-    }
-  }
-  if (wsId == null) return null;
-  const [exists] = await db().select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.id, wsId));
-  return exists ? { workspaceId: wsId, subscriptionId, customerId } : null;
-}
-
-async function apply(tx: Db, event: Stripe.Event, t: Target, w: typeof workspaces.$inferSelect): Promise<string> {
-  if (STATEFUL.includes(event.type)) {
-    const [newer] = await tx
-      .select({ id: stripeEvents.id })
-      .from(stripeEvents)
-      .where(and(eq(stripeEvents.workspaceId, w.id), inArray(stripeEvents.type, STATEFUL), gt(stripeEvents.eventCreatedAt, new Date(event.created * 1000))))
-      .limit(1);
-    if (newer) return "older than an event already applied; recorded only";
-  }
-  const currentRunning = w.stripeSubscriptionId && w.subscriptionStatus && !ENDED.has(w.subscriptionStatus);
-  const isOtherSubscription = (subId: string | null) => Boolean(subId && w.stripeSubscriptionId && subId !== w.stripeSubscriptionId);
-  const base = { stripeCustomerId: w.stripeCustomerId ?? t.customerId };
-
-  switch (event.type) {
-    case "checkout.session.completed": {
-      const s = event.data.object as Stripe.Checkout.Session;
-      if (s.mode !== "subscription") return "not a subscription checkout";
-      if (isOtherSubscription(t.subscriptionId) && currentRunning) return "another subscription is running; recorded only";
-      const paid = s.payment_status === "paid" || s.payment_status === "no_payment_required";
-      await tx
-        .update(workspaces)
-        .set({
-          ...base,
-          stripeSubscriptionId: t.subscriptionId ?? w.stripeSubscriptionId,
-          ...(paid ? { plan: "network" as const, subscriptionStatus: isOtherSubscription(t.subscriptionId) || !w.subscriptionStatus ? "active" : w.subscriptionStatus } : {}),
-        })
-        .where(eq(workspaces.id, w.id));
-      return paid ? "plan network" : "checkout recorded, not paid";
-    }
-    case "customer.subscription.created":
-    case "customer.subscription.updated":
-    case "customer.subscription.deleted": {
-      const sub = event.data.object as Stripe.Subscription;
-      if (isOtherSubscription(sub.id) && currentRunning) return "another subscription is running; recorded only";
-      const status = event.type === "customer.subscription.deleted" ? "canceled" : sub.status;
-      const plan = ACTIVE.has(status) ? ("network" as const) : ENDED.has(status) ? ("free" as const) : w.plan;
-      await tx
-        .update(workspaces)
-        .set({
-          ...base,
-          plan,
-          stripeSubscriptionId: sub.id,
-          subscriptionStatus: status,
-          currentPeriodEnd: periodEndOf(sub),
-          cancelAtPeriodEnd: status === "canceled" ? false : Boolean(sub.cancel_at_period_end),
-        })
-        .where(eq(workspaces.id, w.id));
-      return `plan ${plan}`;
-    }
-    case "invoice.paid": {
-      // A paid renewal confirms the running subscription; it never opens a plan on its own.
-      if (isOtherSubscription(t.subscriptionId)) return "invoice of another subscription; recorded only";
-      if (w.subscriptionStatus && ACTIVE.has(w.subscriptionStatus) && w.plan !== "network") {
-        await tx.update(workspaces).set({ plan: "network" }).where(eq(workspaces.id, w.id));
-        return "plan network";
-      }
-      if (!w.stripeCustomerId && t.customerId) await tx.update(workspaces).set(base).where(eq(workspaces.id, w.id));
-      return "invoice recorded";
-    }
-  }
-  return "ignored";
 }

@@ -11,9 +11,9 @@ export type PlanPrice = { amountCents: number; currency: string; interval: strin
 const KEEP_MS = 10 * 60_000;
 let kept: { key: string; at: number; price: PlanPrice } | null = null;
 
-/** "49.00 EUR per month", "120.00 EUR every 3 months", "490.00 EUR once" (amounts in the currency's minor unit, 2 decimals). */
-export function priceText(amountCents: number, currency: string, interval: string | null, intervalCount = 1): string {
-  const amount = fmtMoney(amountCents, currency);
+/** "49.00 EUR per month", "120.00 EUR every 3 months", "490.00 EUR once", "4,900 JPY per month" (amounts in Stripe's minor unit of the currency: shared/money.ts). */
+export function priceText(amountMinor: number, currency: string, interval: string | null, intervalCount = 1): string {
+  const amount = fmtMoney(amountMinor, currency);
   if (!interval) return `${amount} once`;
   return intervalCount === 1 ? `${amount} per ${interval}` : `${amount} every ${intervalCount} ${interval}s`;
 }

@@ -13,7 +13,7 @@ import { startStripeStandIn, type StandIn } from "../../../fixtures/stripe/serve
 import { call, makeMember, type TestMember } from "~/test/harness";
 import * as billingRoute from "~/routes/workspace.billing";
 import * as webhookRoute from "~/routes/api.stripe.webhook";
-import { sdkOptions } from "./billing.server";
+import { DEFAULT_PRICE_ID, sdkOptions } from "./billing.server";
 
 export const SECRET_KEY = "sk_test_dutymark_unit_0001";
 export const WEBHOOK_SECRET = "whsec_dutymark_unit_0123456789abcdef";
@@ -22,6 +22,7 @@ const SAVED_ENV = {
   secret: process.env.STRIPE_WEBHOOK_SECRET,
   base: process.env.STRIPE_API_BASE,
   price: process.env.STRIPE_PRICE_ID,
+  honoured: process.env.STRIPE_PRICE_IDS_HONOURED,
 };
 
 export type Delivery = { raw: string; signature: string; type: string; id: string; status: number; body: unknown };
@@ -76,6 +77,7 @@ export function useBillingStandIn() {
     process.env.STRIPE_WEBHOOK_SECRET = WEBHOOK_SECRET;
     process.env.STRIPE_API_BASE = kit.standIn.url;
     delete process.env.STRIPE_PRICE_ID;
+    delete process.env.STRIPE_PRICE_IDS_HONOURED;
     kit.sdk = new Stripe(SECRET_KEY, sdkOptions(kit.standIn.url));
   });
 
@@ -88,6 +90,7 @@ export function useBillingStandIn() {
       ["STRIPE_WEBHOOK_SECRET", SAVED_ENV.secret],
       ["STRIPE_API_BASE", SAVED_ENV.base],
       ["STRIPE_PRICE_ID", SAVED_ENV.price],
+      ["STRIPE_PRICE_IDS_HONOURED", SAVED_ENV.honoured],
     ] as const) {
       if (v === undefined) delete process.env[k];
       else process.env[k] = v;
@@ -142,15 +145,26 @@ export function signed(event: Record<string, unknown>, opts: { secret?: string; 
   return { raw, signature };
 }
 
+/** Stripe moves a stand-in subscription to another state (fixtures/stripe/README.md: /_test/status); its webhook lands before this returns. */
+export async function setStatus(subscriptionId: string, status: string) {
+  const r = await fetch(`${kit.standIn.url}/_test/status?subscription=${subscriptionId}&status=${status}`, { method: "POST" });
+  expect(r.status).toBe(200);
+}
+
+const RUN = Date.now().toString(36);
 let seq = 0;
+/** A subscription id of this run (ids are looked up per workspace, but a run never reuses one). */
+export const subId = (name: string) => `sub_unit_${RUN}_${name}_${seq++}`;
+
+/** A hand-made subscription event; its one item is on the configured price unless `price` says otherwise. */
 export function subscriptionEvent(
   type: string,
   customer: string,
-  sub: { id?: string; status: string; cancelAtPeriodEnd?: boolean; periodEnd?: number; workspaceId?: number },
+  sub: { id?: string; status: string; cancelAtPeriodEnd?: boolean; periodEnd?: number; workspaceId?: number; price?: string },
   created = Math.floor(Date.now() / 1000),
 ) {
   return {
-    id: `evt_unit_${Date.now().toString(36)}_${seq++}`,
+    id: `evt_unit_${RUN}_${seq++}`,
     object: "event",
     api_version: Stripe.API_VERSION,
     created,
@@ -160,7 +174,7 @@ export function subscriptionEvent(
     request: { id: null, idempotency_key: null },
     data: {
       object: {
-        id: sub.id ?? `sub_unit_${seq}`,
+        id: sub.id ?? `sub_unit_${RUN}_${seq}`,
         object: "subscription",
         customer,
         status: sub.status,
@@ -168,7 +182,15 @@ export function subscriptionEvent(
         metadata: sub.workspaceId ? { workspace_id: String(sub.workspaceId) } : {},
         items: {
           object: "list",
-          data: [{ id: "si_unit", object: "subscription_item", current_period_start: created, current_period_end: sub.periodEnd ?? created + 30 * 86400 }],
+          data: [
+            {
+              id: "si_unit",
+              object: "subscription_item",
+              price: { id: sub.price ?? DEFAULT_PRICE_ID, object: "price" },
+              current_period_start: created,
+              current_period_end: sub.periodEnd ?? created + 30 * 86400,
+            },
+          ],
         },
       },
     },
@@ -189,4 +211,29 @@ export async function customerWorkspace() {
   const customer = `cus_unit_${Date.now().toString(36)}${seq++}`;
   await db().update(workspaces).set({ stripeCustomerId: customer }).where(eq(workspaces.id, admin.workspaceId));
   return { admin, customer };
+}
+
+/** Signs and posts a hand-made event; returns the route's answer. */
+export async function deliver(event: Record<string, unknown>) {
+  const { raw, signature } = signed(event);
+  const r = await post(raw, signature);
+  expect(r.status).toBe(200);
+  return r.body as { received: boolean; result: string };
+}
+
+/**
+ * A workspace whose subscription is in `status`: through the stand-in (subscribe, then Stripe moves it), or
+ * for `incomplete` — only ever a new subscription's first state — a signed customer.subscription.created.
+ */
+export async function subscriptionIn(status: string) {
+  if (status === "incomplete") {
+    const { admin, customer } = await customerWorkspace();
+    expect((await deliver(subscriptionEvent("customer.subscription.created", customer, { id: subId("I"), status }))).result).toBe("plan free");
+    return admin;
+  }
+  const admin = await makeMember("admin");
+  const w = await subscribe(admin);
+  await setStatus(w.stripeSubscriptionId!, status);
+  await waitFor(async () => (await ws(admin.workspaceId)).subscriptionStatus === status, `status ${status} from the webhook`);
+  return admin;
 }

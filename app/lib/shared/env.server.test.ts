@@ -7,7 +7,7 @@ describe("settings", () => {
   test("an empty environment gives the documented defaults", () => {
     const s = settings({});
     expect(s).toMatchObject({ port: 3000, host: "127.0.0.1", appUrl: null, cookieSecure: false, trustProxy: false, accessLog: true, smtpUrl: null, mailFrom: DEFAULT_MAIL_FROM, mailFlushIntervalMs: null, production: false });
-    expect(s.stripe).toEqual({ secretKey: "", webhookSecret: "", priceId: null, apiBase: null });
+    expect(s.stripe).toEqual({ secretKey: "", webhookSecret: "", priceId: null, honouredPriceIds: [], apiBase: null });
   });
 
   test("values are trimmed, trailing slashes dropped, empty strings count as unset", () => {
@@ -24,6 +24,10 @@ describe("settings", () => {
     expect(settings({ APP_URL: "http://pumps.example" }).cookieSecure).toBe(false);
     expect(settings({ APP_URL: "https://pumps.example", COOKIE_SECURE: "0" }).cookieSecure).toBe(false);
     expect(settings({ APP_URL: "http://pumps.example", COOKIE_SECURE: "1" }).cookieSecure).toBe(true);
+  });
+
+  test("STRIPE_PRICE_IDS_HONOURED: older plan prices, comma-separated, spaces and empty entries dropped — our setting", () => {
+    expect(settings({ STRIPE_PRICE_IDS_HONOURED: " price_network_2025, price_network_2024 ,," }).stripe.honouredPriceIds).toEqual(["price_network_2025", "price_network_2024"]);
   });
 
   test("a cluster DATABASE_URL (several hosts) is accepted", () => {
@@ -51,6 +55,7 @@ describe("bad values are named, one line each", () => {
     ["MAIL_FLUSH_INTERVAL_MS", "NaN", /^MAIL_FLUSH_INTERVAL_MS must be a whole number/],
     ["STRIPE_SECRET_KEY", "pk_live_123", /^STRIPE_SECRET_KEY must start with sk_ or rk_/],
     ["STRIPE_WEBHOOK_SECRET", "secret", /^STRIPE_WEBHOOK_SECRET must start with whsec_/],
+    ["STRIPE_PRICE_IDS_HONOURED", "price_a, prod_b", /^STRIPE_PRICE_IDS_HONOURED must be price ids \(price_…\) separated by commas/],
   ];
   test.each(cases)("%s=%s", (key, value, message) => {
     const problems = settingsProblems({ [key]: value });

@@ -24,6 +24,14 @@ const url = (name: string, protocols: readonly string[]) =>
 const integer = (name: string, min: number, max: number) =>
   v.optional(v.pipe(v.string(), v.regex(/^\d+$/, `${name} must be a whole number from ${min} to ${max}`), v.transform(Number), v.minValue(min, `${name} must be at least ${min}`), v.maxValue(max, `${name} must be at most ${max}`)));
 
+/** "price_a, price_b,," → ["price_a", "price_b"]. */
+function priceList(s: string | undefined): string[] {
+  return (s ?? "")
+    .split(",")
+    .map((p) => p.trim())
+    .filter(Boolean);
+}
+
 const EnvSchema = v.object({
   NODE_ENV: v.optional(v.picklist(["development", "production", "test"], "NODE_ENV must be development, production or test")),
   /** The address users reach the app at; links in e-mails, cookie Secure flag, CSP form-action, HSTS. */
@@ -59,6 +67,13 @@ const EnvSchema = v.object({
   STRIPE_SECRET_KEY: v.optional(v.pipe(v.string(), v.regex(/^(sk|rk)_/, "STRIPE_SECRET_KEY must start with sk_ or rk_"))),
   STRIPE_WEBHOOK_SECRET: v.optional(v.pipe(v.string(), v.regex(/^whsec_/, "STRIPE_WEBHOOK_SECRET must start with whsec_"))),
   STRIPE_PRICE_ID: v.optional(v.pipe(v.string(), v.regex(/^price_/, "STRIPE_PRICE_ID must start with price_"))),
+  /** Older prices of the paid plan whose subscriptions still open it (besides STRIPE_PRICE_ID), comma-separated. */
+  STRIPE_PRICE_IDS_HONOURED: v.optional(
+    v.pipe(
+      v.string(),
+      v.check((s) => priceList(s).every((p) => /^price_\w+$/.test(p)), "STRIPE_PRICE_IDS_HONOURED must be price ids (price_…) separated by commas"),
+    ),
+  ),
   /** The Stripe stand-in (fixtures/stripe) or another API base; unset = Stripe itself. */
   STRIPE_API_BASE: url("STRIPE_API_BASE", ["http:", "https:"]),
   VITEST: v.optional(v.string()),
@@ -83,8 +98,9 @@ export type Settings = {
   mailboxApiUrl: string | null;
   mailboxEnabledFlag: boolean;
   testMode: boolean;
-  stripe: { secretKey: string; webhookSecret: string; priceId: string | null; apiBase: string | null };
+  stripe: { secretKey: string; webhookSecret: string; priceId: string | null; honouredPriceIds: string[]; apiBase: string | null };
 };
+
 
 export const DEFAULT_MAIL_FROM = "Dutymark <no-reply@dutymark.localhost>";
 
@@ -129,6 +145,7 @@ function normalise(raw: Raw): Settings {
       secretKey: raw.STRIPE_SECRET_KEY ?? "",
       webhookSecret: raw.STRIPE_WEBHOOK_SECRET ?? "",
       priceId: raw.STRIPE_PRICE_ID ?? null,
+      honouredPriceIds: priceList(raw.STRIPE_PRICE_IDS_HONOURED),
       apiBase: strip(raw.STRIPE_API_BASE),
     },
   };

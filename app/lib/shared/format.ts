@@ -9,8 +9,8 @@
  */
 export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText";
 
-/** An amount in a currency's minor unit (2 decimals), e.g. 4900, "eur" → "49.00 EUR". */
-export const fmtMoney = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+/** An amount in Stripe's minor unit of its currency (money.ts: 0, 2 or 3 decimals), e.g. 4900, "eur" → "49.00 EUR"; 4900, "jpy" → "4,900 JPY". */
+export { fmtMoney } from "./money";
 
 const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 /** A whole number with thousands separators, e.g. 12345 → "12,345". */
