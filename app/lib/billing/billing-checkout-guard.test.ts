@@ -9,7 +9,9 @@ import { kit, useBillingStandIn, ws, pay, upgrade, subscriptionIn, waitFor } fro
 
 useBillingStandIn();
 
-const pressUpgrade = (cookie: string) => call(billingRoute.action as never, { path: "/workspace/billing", cookie, form: { intent: "upgrade" } });
+/** The billing page's Upgrade form as the admin's page posts it (with the page's workspace: stale-workspace-forms). */
+const pressUpgrade = (m: { cookie: string; workspaceId: number }) =>
+  call(billingRoute.action as never, { path: "/workspace/billing", cookie: m.cookie, form: { intent: "upgrade", pageWorkspaceId: String(m.workspaceId) } });
 /** Checkout Sessions Stripe holds for the customer (the stand-in lists none for a customer it does not know). */
 const openedFor = async (customer: string) => (await kit.sdk.checkout.sessions.list({ customer, limit: 100 })).data.length;
 const liveAtStripe = async (customer: string) => (await kit.sdk.subscriptions.list({ customer, status: "all" })).data.filter((s) => s.status !== "canceled" && s.status !== "incomplete_expired");
@@ -38,7 +40,7 @@ describe("checkout opens no second subscription", () => {
     kit.receiver.state.paused = true; // our endpoint is down: the row knows nothing yet
     expect((await pay(url, "4242 4242 4242 4242")).status).toBe(303);
     expect((await ws(admin.workspaceId)).stripeSubscriptionId).toBeNull();
-    const r = await pressUpgrade(admin.cookie);
+    const r = await pressUpgrade(admin);
     expect(r.status).toBe(409);
     expect(r.location).toBeNull();
     const message = (r.body as { errors: { _form: string } }).errors._form;
@@ -56,7 +58,7 @@ describe("checkout opens no second subscription", () => {
       const admin = await subscriptionIn(status);
       const customer = (await ws(admin.workspaceId)).stripeCustomerId!;
       const before = await openedFor(customer);
-      const r = await pressUpgrade(admin.cookie);
+      const r = await pressUpgrade(admin);
       expect(r.status).toBe(409);
       expect(r.location).toBeNull();
       expect((r.body as { errors: { _form: string } }).errors._form).toContain("Payment details on Stripe");
