@@ -1,0 +1,79 @@
+// Property sweep: every demo curve set on viscous liquids from a light oil to past the ANSI/HI 9.6.7 method's range
+// (B from below 1 to above 40), duties around each curve's BEP, three adjustments. What must hold whatever the case:
+// the evaluation throws nothing but the engine's typed refusal; a curve the method corrects is judged on it and the
+// verdict says so; one it cannot correct never "meets"; a "meets" delivers the duty at every band edge on the liquid.
+// Check values: our rules (app/engine/verdict.ts, viscous.ts: B ≤ 1 no correction, 1 < B ≤ 40 corrected, above 40
+// outside the method), the demo data (invented, fixtures/demo/generate.ts).
+import { describe, expect, it } from "vitest";
+import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { EngineInputError } from "~/engine";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type CurvePointsIn, type SystemInput } from "./hydraulics";
+
+const M3H = 1 / 3600;
+const si = (c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } => ({
+  speed: c.speed,
+  impellerDiameter: c.impellerMm / 1000,
+  points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
+});
+const sets = generateDemo().flatMap((d) => d.curves);
+const RHO = 880; // kg/m³, an invented oil
+/** Kinematic viscosities swept, cSt: B from below 1 to above 40 on the demo pumps (B ∝ √ν). */
+const CST = [3, 40, 400, 3000, 20000];
+
+describe("property: demo curves on viscous liquids", () => {
+  it(`sweeps ${sets.length} curve sets × ${CST.length} liquids × 2 duties × 3 adjustments`, () => {
+    const seen = { "no-correction": 0, corrected: 0, "outside-method": 0, meetsCorrected: 0, refused: 0 } as Record<string, number>;
+    for (const c of sets) {
+      const s = si(c);
+      const bep = s.points.reduce((a, b) => ((b.efficiency ?? 0) > (a.efficiency ?? 0) ? b : a));
+      for (const cst of CST) {
+        for (const qf of [0.6, 0.9]) {
+          const qd = bep.flow * qf;
+          const hp = s.points.find((p) => p.flow >= qd)!.head * 0.85; // what the oil leaves of the water head, about
+          const input: SystemInput = {
+            ...defaultSystemInput(),
+            fluid: { kind: "custom", name: "Sweep oil", density: RHO, dynamicViscosity: cst * 1e-6 * RHO, vaporPressure: 100 },
+            staticLow: hp * 0.5,
+            staticHigh: hp * 0.6,
+            duty: { flow: qd, head: hp },
+          };
+          for (const adj of [DEFAULT_ADJUSTMENT, { ...DEFAULT_ADJUSTMENT, method: "speed" as const }, { ...DEFAULT_ADJUSTMENT, method: "trim" as const }]) {
+            const where = `${c.model} ${c.speed} rpm Ø${c.impellerMm} · ${cst} cSt · ${qf} BEP · ${adj.method}`;
+            let r;
+            try {
+              r = evaluateCandidate(input, s, adj);
+            } catch (e) {
+              expect(e, where).toBeInstanceOf(EngineInputError); // refused in words, never a crash
+              seen.refused++;
+              continue;
+            }
+            const status = r.viscosity?.status;
+            if (status) seen[status] = (seen[status] ?? 0) + 1;
+            const v = r.verdict;
+            if (!v) continue;
+            if (status === "corrected") {
+              expect(v.status, where).not.toBe("viscosity-uncorrected");
+              if (v.status !== "outside-catalogue") expect(v.rule, where).toContain("corrected for viscosity per ANSI/HI 9.6.7");
+              expect(r.viscosityB!, where).toBeGreaterThan(1);
+              expect(r.viscosityB!, where).toBeLessThanOrEqual(40);
+            }
+            if (status === "outside-method") {
+              expect(r.viscosityB!, where).toBeGreaterThan(40);
+              expect(v.status, where).not.toBe("meets");
+              expect(v.status, where).not.toBe("oversized");
+            }
+            if (v.status === "meets") {
+              if (status === "corrected") seen.meetsCorrected++;
+              for (const b of r.band) expect(b.flow!, where).toBeGreaterThanOrEqual(qd * (1 - 1e-6));
+            }
+          }
+        }
+      }
+    }
+    // The sweep reaches every case it claims to (else it proves nothing).
+    expect(seen["no-correction"]).toBeGreaterThan(20);
+    expect(seen.corrected).toBeGreaterThan(100);
+    expect(seen["outside-method"]).toBeGreaterThan(20);
+    expect(seen.meetsCorrected).toBeGreaterThan(10);
+  });
+});
