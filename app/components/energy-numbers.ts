@@ -2,26 +2,10 @@
 // and a column of step values (kWh, hours) printed at one precision with its total, so that the rows add up to the
 // total as printed, or the total says they do not. Money here is a computed amount in the workspace's currency (a
 // float); shared/format.ts's fmtMoney is for integer cents from billing and stays as it is.
+import { currencyDigits } from "~/lib/shared/money";
 
-const MINOR_DIGITS = new Map<string, number>();
-
-/**
- * Digits of a currency's minor unit: EUR and GBP 2, JPY 0, BHD 3 (ISO 4217, as Intl.NumberFormat's currency data gives
- * them: resolvedOptions().maximumFractionDigits); 2 for a code Intl does not take or a currency not set.
- */
-export function currencyMinorDigits(currency: string): number {
-  const code = (currency ?? "").trim().toUpperCase();
-  let d = MINOR_DIGITS.get(code);
-  if (d === undefined) {
-    try {
-      d = new Intl.NumberFormat("en", { style: "currency", currency: code }).resolvedOptions().maximumFractionDigits ?? 2;
-    } catch {
-      d = 2; // not an ISO 4217 code (or none): cents, the common case
-    }
-    MINOR_DIGITS.set(code, d);
-  }
-  return d;
-}
+/** Digits of a currency's minor unit as written (shared/money.ts `currencyDigits`: EUR 2, JPY 0, BHD 3; 2 when unknown). */
+export const currencyMinorDigits = currencyDigits;
 
 const unitOf = (currency: string) => currency || "(currency not set)";
 const unsignedZero = (t: string) => (/^-0(\.0+)?$/.test(t) ? t.slice(1) : t);

@@ -85,7 +85,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "price": {
       const candidateId = formId(form, "candidateId");
-      const { cents, error } = readPriceCents(form.get("purchasePrice"));
+      const { cents, error } = readPriceCents(form.get("purchasePrice"), await workspaceCurrency(m.workspace.id));
       if (cents === undefined) return { errors: { [`price.${candidateId}`]: error }, notice: null };
       await setCandidatePrice(viewer, candidateId, cents);
       return { errors: {}, notice: cents === null ? "Purchase price cleared." : "Purchase price set." };

@@ -91,6 +91,8 @@ describe("duty cycle and life-cycle cost on the workbench", () => {
     const post = (price: string) => call(systemPage.action as never, { path: `/systems/${systemId}`, cookie: m.cookie, params: { id: String(systemId) }, form: { intent: "price", candidateId: String(candidateId), purchasePrice: price } });
     expect((await post("abc")).body).toMatchObject({ errors: { [`price.${candidateId}`]: expect.stringMatching(/number/) } });
     expect((await post("-5")).body).toMatchObject({ errors: { [`price.${candidateId}`]: expect.any(String) } });
+    // The workspace's currency (GBP, set above) decides the decimals a price may have: the action reads it.
+    expect((await post("12.505")).body).toMatchObject({ errors: { [`price.${candidateId}`]: "GBP prices are kept to 2 decimals here: 12.505 has more." } });
     await post("2 450,50");
     const e = (await systemWorkbench(eng, systemId)).candidates[0].energy!;
     expect(e.purchasePrice).toBe(2450.5);

@@ -2,6 +2,7 @@
 // Pure: the server renders with it, the live preview and the selection report read its output.
 // The engine does the physics (app/engine/dutyCycle.ts, lifeCycleCost.ts); this file picks the
 // inputs out of the system document and the evaluated candidate.
+import { currencyDigits } from "../shared/money";
 import * as v from "valibot";
 import {
   CIRCULATOR_PROFILE_SOURCE,
@@ -221,13 +222,22 @@ export function cycleWarnings(cycle: CycleNotes): string[] {
 /**
  * A typed purchase price → integer cents (null: blank, which clears it), through the forms' strict reader
  * (shared/decimal.ts: 1,500 is refused as ambiguous; thousands may be grouped only by spaces, 2 450,50).
- * Not a number, negative or absurd (over 10¹² in the user's currency): the message for the field.
+ * Not a number, negative or absurd (over 10¹² in the user's currency), or with more decimals than the currency's minor
+ * unit (JPY none, EUR 2: `currencyDigits`) or than the hundredths it is kept in (BHD's third): the message for the
+ * field — never a price kept as typed and shown rounded (12.50 JPY shown as 13 JPY), nor rounded on the way in.
+ * @param currency the workspace's currency (ISO 4217; "" when not set: 2 decimals)
  */
-export function readPriceCents(raw: FormDataEntryValue | null): { cents: number | null; error?: undefined } | { cents?: undefined; error: string } {
+export function readPriceCents(raw: FormDataEntryValue | null, currency = ""): { cents: number | null; error?: undefined } | { cents?: undefined; error: string } {
   const r = readDecimal(raw, { spaceGroups: true });
   if (r.kind === "blank") return { cents: null };
   if (r.kind === "bad" && r.grouped) return { error: "The purchase price must be a number with one decimal point or comma; group thousands with spaces only (2 450,50)." };
   if (r.kind !== "number") return { error: decimalMessage(r, "the purchase price") };
   if (r.value < 0 || r.value > 1e12) return { error: "The purchase price is a number ≥ 0 (blank clears it)." };
+  const digits = Math.min(currencyDigits(currency), 2); // stored in hundredths (candidates.purchase_price_cents)
+  const scaled = r.value * 10 ** digits;
+  if (Math.abs(scaled - Math.round(scaled)) > 1e-6 * Math.max(1, scaled)) {
+    const what = currency.trim() ? `${currency.trim().toUpperCase()} prices` : "Prices";
+    return { error: digits === 0 ? `${what} are whole numbers here: ${r.value} has decimals.` : `${what} are kept to ${digits} decimals here: ${r.value} has more.` };
+  }
   return { cents: Math.round(r.value * 100) };
 }

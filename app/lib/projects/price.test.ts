@@ -22,4 +22,13 @@ describe("readPriceCents", () => {
     expect(readPriceCents("  ")).toEqual({ cents: null });
     expect(readPriceCents(null)).toEqual({ cents: null });
   });
+  it("refuses more decimals than the currency's minor unit (ISO 4217 via Intl: JPY 0, EUR 2) or than the hundredths kept, never rounding on the way in", () => {
+    expect(readPriceCents("12.50", "JPY")).toEqual({ error: "JPY prices are whole numbers here: 12.5 has decimals." });
+    expect(readPriceCents("12", "JPY")).toEqual({ cents: 1200 });
+    expect(readPriceCents("12.505", "EUR")).toEqual({ error: "EUR prices are kept to 2 decimals here: 12.505 has more." });
+    expect(readPriceCents("12.50", "EUR")).toEqual({ cents: 1250 });
+    expect(readPriceCents("0.29", "EUR")).toEqual({ cents: 29 }); // 0.29 × 100 is 28.999… in floating point: not refused
+    expect(readPriceCents("1.234", "BHD").error).toBe("BHD prices are kept to 2 decimals here: 1.234 has more."); // BHD has 3, kept in hundredths
+    expect(readPriceCents("12.505")).toEqual({ error: "Prices are kept to 2 decimals here: 12.505 has more." }); // no currency set: 2
+  });
 });

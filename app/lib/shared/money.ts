@@ -20,13 +20,29 @@ export function minorUnitDigits(currency: string): number {
   return ZERO_DECIMAL.has(c) ? 0 : THREE_DECIMAL.has(c) ? 3 : 2;
 }
 
+const CLDR_DIGITS = new Map<string, number | null>();
 /** Decimals CLDR writes for the currency (JPY 0, EUR 2, KWD 3), or null for a code Intl refuses. */
 function shownDigits(currency: string): number | null {
-  try {
-    return new Intl.NumberFormat("en-GB", { style: "currency", currency }).resolvedOptions().maximumFractionDigits ?? null;
-  } catch {
-    return null;
+  const code = (currency ?? "").trim().toUpperCase();
+  let d = CLDR_DIGITS.get(code);
+  if (d === undefined) {
+    try {
+      d = new Intl.NumberFormat("en-GB", { style: "currency", currency: code }).resolvedOptions().maximumFractionDigits ?? null;
+    } catch {
+      d = null;
+    }
+    CLDR_DIGITS.set(code, d);
   }
+  return d;
+}
+
+/**
+ * Digits of a currency's minor unit as it is written (ISO 4217 through CLDR, Intl's currency data): EUR and GBP 2, JPY 0,
+ * BHD 3; 2 for a code Intl does not take or a currency not set. For amounts the app computes or a user types in the
+ * workspace's currency (energy cost, purchase prices); Stripe's own amounts use `minorUnitDigits`.
+ */
+export function currencyDigits(currency: string): number {
+  return shownDigits(currency) ?? 2;
 }
 
 const formats = new Map<number, Intl.NumberFormat>();
