@@ -3,20 +3,12 @@
 // 0 kWh, the step met); the pressure modes keep refusing a set point ≤ 0, and system-curve control needs none.
 // Check values: hand algebra on the made-up curve and system below (not any vendor's pump).
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
+import { dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
+import { knotCurve } from "./test/curves.ts";
 
 const M3H = 1 / 3600;
 // H = 20 − 0.02·Q² (Q in m³/h) at the knots, shaft power given (W at 1000 kg/m³) — the curve of dutyCycle.test.ts.
-const curve = createPumpCurve({
-  points: [
-    { flow: 0, head: 20, power: 300 },
-    { flow: 5 * M3H, head: 19.5, power: 450 },
-    { flow: 10 * M3H, head: 18, power: 600 },
-    { flow: 15 * M3H, head: 15.5, power: 720 },
-    { flow: 20 * M3H, head: 12, power: 800 },
-  ],
-  powerDensity: 1000,
-});
+const curve = knotCurve();
 const qd = 10 * M3H;
 /** Downhill: H = z + 4 m × (Q / 10 m³/h)². With z = −1 m the head is 3 m at the design flow and 0 at Q = 5 m³/h (f = 0.5, hand algebra). */
 const downhill = (z: number) => (q: number) => z + 4 * (q / qd) ** 2;

@@ -1,20 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, defaultCirculatorProfile, dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
+import { defaultCirculatorProfile, dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
+import { knotCurve } from "./test/curves.ts";
 
 // A made-up pump (not any vendor's): knots every 5 m³/h, H = 20 − 0.02·Q² (Q in m³/h), shaft power given
 // at the knots (W, at 1000 kg/m³, the curve's power density). Steps fall on knots, so the monotone cubic
 // returns the knot values exactly and the hand calculation needs no interpolation.
 const M3H = 1 / 3600;
-const curve = createPumpCurve({
-  points: [
-    { flow: 0, head: 20, power: 300 },
-    { flow: 5 * M3H, head: 19.5, power: 450 },
-    { flow: 10 * M3H, head: 18, power: 600 },
-    { flow: 15 * M3H, head: 15.5, power: 720 },
-    { flow: 20 * M3H, head: 12, power: 800 },
-  ],
-  powerDensity: 1000,
-});
+const curve = knotCurve();
 const qd = 10 * M3H;
 // Closed loop through the design point: H = 18 m × (Q / 10 m³/h)² (no static head).
 const systemHead = (q: number) => 18 * (q / qd) ** 2;

@@ -1,5 +1,5 @@
 // Shared test data: synthetic pump curves made up for the tests (not any vendor's data).
-import type { PumpPoint } from "../index.ts";
+import { createPumpCurve, type PumpCurve, type PumpPoint } from "../index.ts";
 
 export const M3H = 1 / 3600;
 
@@ -29,4 +29,21 @@ export function quadraticPoints(h0: number, qr: number, n = 9, etaMax = 0.8, qBe
     pts.push({ flow: q, head: h0 * (1 - (q / qr) ** 2), efficiency: Math.max(0, etaMax * x * (2 - x)) || (i === 0 ? 0 : 0.05) });
   }
   return pts;
+}
+
+/**
+ * A made-up small pump (not any vendor's): knots every 5 m³/h, H = 20 − 0.02·Q² (Q in m³/h), shaft power given at the
+ * knots (W, at 1000 kg/m³, the curve's power density). Steps on knots need no interpolation in a hand calculation.
+ */
+export function knotCurve(): PumpCurve {
+  return createPumpCurve({
+    points: [
+      { flow: 0, head: 20, power: 300 },
+      { flow: 5 * M3H, head: 19.5, power: 450 },
+      { flow: 10 * M3H, head: 18, power: 600 },
+      { flow: 15 * M3H, head: 15.5, power: 720 },
+      { flow: 20 * M3H, head: 12, power: 800 },
+    ],
+    powerDensity: 1000,
+  });
 }

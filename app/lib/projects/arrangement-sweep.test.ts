@@ -6,17 +6,12 @@
 // parallel add flow at equal head, in series add head at equal flow), our rules (app/engine/verdict.ts), the demo data
 // (invented, fixtures/demo/generate.ts).
 import { describe, expect, it } from "vitest";
-import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { demoCurves, demoCurveSI } from "~/test/demo-curves";
 import { createPumpCurve, EngineInputError, headAt } from "~/engine";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, toPumpPoints, type Adjustment, type CurvePointsIn, type SystemInput } from "./hydraulics";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, toPumpPoints, type Adjustment, type SystemInput } from "./hydraulics";
 
-const M3H = 1 / 3600;
-const si = (c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } => ({
-  speed: c.speed,
-  impellerDiameter: c.impellerMm / 1000,
-  points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
-});
-const sets = generateDemo().flatMap((d) => d.curves);
+const si = demoCurveSI;
+const sets = demoCurves;
 const ARRANGEMENTS: Pick<Adjustment, "arrangement" | "dutyPumps" | "standbyPumps">[] = [
   { arrangement: "parallel", dutyPumps: 2, standbyPumps: 1 },
   { arrangement: "parallel", dutyPumps: 3, standbyPumps: 0 },

@@ -4,22 +4,17 @@
 // identities that hold by construction.
 import * as v from "valibot";
 import { describe, expect, it } from "vitest";
-import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { generateDemo } from "../../../fixtures/demo/generate";
+import { demoCurveSI } from "~/test/demo-curves";
 import { demoSystems } from "../../cli/demo-systems";
-import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, tableRun, type CurvePointsIn, type SystemInput } from "./hydraulics";
+import { AdjustmentSchema, DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, SystemInputSchema, tableRun, type SystemInput } from "./hydraulics";
 import { motorEfficiency } from "~/engine";
 import { inSI } from "~/engine/quantityText"; // quantities in messages are tokens: SI text for the checks below
 
 const M3H = 1 / 3600;
 
 /** Demo curve in SI (points as stored: m³/s, m, fraction, W, m). */
-function si(c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } {
-  return {
-    speed: c.speed,
-    impellerDiameter: c.impellerMm / 1000,
-    points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
-  };
-}
+const si = demoCurveSI;
 const demo = generateDemo();
 const allCurves = demo.flatMap((d) => d.curves);
 const curve = (model: string, speed: number, mm: number) => allCurves.find((c) => c.model === model && c.speed === speed && c.impellerMm === mm)!;

@@ -2,14 +2,13 @@
 // ANSI/HI 9.6.7 (from memory: B above 1 needs a viscosity correction), the laminar limit Re 2000 (common practice),
 // and the product's rules (app/engine/verdict.ts).
 import { describe, expect, it } from "vitest";
-import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { demoCurves, demoCurveSI } from "~/test/demo-curves";
 import { demoSystems } from "../../cli/demo-systems";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, type SystemInput } from "./hydraulics";
 import { bisection, createPumpCurve, efficiencyAt, speedForDuty } from "~/engine";
 import { toPumpPoints } from "./candidate-input";
 import { inSI } from "~/engine/quantityText";
 
-const M3H = 1 / 3600;
 const custom = (mu: number): SystemInput => ({ ...defaultSystemInput(), fluid: { kind: "custom", name: "oil", density: 900, dynamicViscosity: mu, vaporPressure: 100 } });
 // The hunt's water-test curve (invented): 10 L/s at 20 m-ish, BEP near 0.011 m³/s, 2900 rpm.
 const huntCurve = {
@@ -144,9 +143,8 @@ describe("catalogue fittings at low Reynolds number", () => {
 });
 
 describe("water is the curve's own liquid: nothing new on the demo systems", () => {
-  const curves: DemoCurve[] = generateDemo().flatMap((d) => d.curves).filter((_, i) => i % 4 === 0);
-  const si = (c: DemoCurve) => ({ speed: c.speed, impellerDiameter: c.impellerMm / 1000,
-    points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })) });
+  const curves = demoCurves.filter((_, i) => i % 4 === 0);
+  const si = demoCurveSI;
   const systems = [...demoSystems().map((d) => d.input), defaultSystemInput()];
   it("no viscosity warning, no B, no qualified verdict, and no low-Re fittings warning", () => {
     let judged = 0;

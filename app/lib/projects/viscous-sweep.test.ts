@@ -5,17 +5,12 @@
 // Check values: our rules (app/engine/verdict.ts, viscous.ts: B ≤ 1 no correction, 1 < B ≤ 40 corrected, above 40
 // outside the method), the demo data (invented, fixtures/demo/generate.ts).
 import { describe, expect, it } from "vitest";
-import { generateDemo, type DemoCurve } from "../../../fixtures/demo/generate";
+import { demoCurves, demoCurveSI } from "~/test/demo-curves";
 import { EngineInputError } from "~/engine";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type CurvePointsIn, type SystemInput } from "./hydraulics";
+import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type SystemInput } from "./hydraulics";
 
-const M3H = 1 / 3600;
-const si = (c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } => ({
-  speed: c.speed,
-  impellerDiameter: c.impellerMm / 1000,
-  points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
-});
-const sets = generateDemo().flatMap((d) => d.curves);
+const si = demoCurveSI;
+const sets = demoCurves;
 const RHO = 880; // kg/m³, an invented oil
 /** Kinematic viscosities swept, cSt: B from below 1 to above 40 on the demo pumps (B ∝ √ν). */
 const CST = [3, 40, 400, 3000, 20000];
