@@ -118,7 +118,8 @@ export async function createAsMember<E extends v.ObjectEntries>(
   const m = await requireMember(request, permission);
   const r = await readForm(request, v.object({ ...schema.entries, pageWorkspaceId: PageWorkspaceId }));
   if (!r.ok) return invalid(r.errors);
-  const { pageWorkspaceId, ...value } = r.value;
+  // The generic object's output loses its keys' types here: the page's id is the number PageWorkspaceId makes, the rest `schema`'s.
+  const { pageWorkspaceId, ...value } = r.value as { pageWorkspaceId: number };
   const stale = staleWorkspacePage(m, pageWorkspaceId);
   if (stale) return invalid({ _form: stale }, 409);
   throw redirect(page(await create(viewerOf(m), value as v.InferOutput<v.ObjectSchema<E, undefined>>)));
