@@ -28,6 +28,7 @@ import { BIG_INPUT, ChoiceSelect, FieldError, inputId, NumberField, UnitSelect, 
 import { putQueued, type QueuedCheck } from "./queue";
 import { sendWaiting } from "./sync";
 import { renderUnits, type UnitChoice } from "~/lib/shared/units";
+import { PageWorkspaceField } from "../forms";
 
 /** Field names as the summary at the top names them. */
 const LABELS: Record<string, string> = {
@@ -44,6 +45,8 @@ type Props = {
   selection: FormSelection;
   /** "userId/workspaceId" of the signed-in contractor: the queue sends only their checks. */
   owner: string;
+  /** The workspace the page showed: the check is recorded for it or refused (`PageWorkspaceField`). */
+  workspaceId: number;
   /** The reader's units: messages worked out on the phone are rendered in them. */
   units: UnitChoice;
   fields: CheckFields;
@@ -149,6 +152,7 @@ export function CheckForm(props: Props) {
       noValidate
       onSubmit={onSubmit}
     >
+      <PageWorkspaceField id={props.workspaceId} />
       <ErrorSummary errors={errors} labels={LABELS} />
       {saved ? (
         <p role="status" className="panel text-sm">

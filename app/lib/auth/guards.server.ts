@@ -1,5 +1,5 @@
 // Throwing guards, called first in every loader and action. The server decides; the UI only hides.
-import type * as v from "valibot";
+import * as v from "valibot";
 import { data, redirect } from "react-router";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
@@ -11,7 +11,7 @@ import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
 import { oncePerRequest, readsShared } from "../shared/request-scope.server";
-import { invalid, readForm } from "../shared/forms.server";
+import { invalid, PageWorkspaceId, readForm, type FieldErrors } from "../shared/forms.server";
 import { viewerOf, type Viewer } from "./viewer.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
@@ -104,20 +104,25 @@ export async function requireMember(request: Request, permission?: Permission): 
 
 /**
  * The action of a workspace's "new …" form: a member with `permission` (else 401/403 as `requireMember`), the
- * form read with `schema`, then its field errors (400) or `create` and a redirect to `page(id)`; a post without
- * JavaScript lands there too.
+ * form read with `schema` and the page's workspace (`pageWorkspaceId`), then its field errors (400), the page's
+ * workspace refused when the session has moved to another since (409, `staleWorkspacePage`: nothing created),
+ * or `create` and a redirect to `page(id)`; a post without JavaScript lands there too.
  */
-export async function createAsMember<S extends v.GenericSchema>(
+export async function createAsMember<E extends v.ObjectEntries>(
   request: Request,
   permission: Permission,
-  schema: S,
-  create: (viewer: Viewer, value: v.InferOutput<S>) => Promise<number>,
+  schema: v.ObjectSchema<E, undefined>,
+  create: (viewer: Viewer, value: v.InferOutput<v.ObjectSchema<E, undefined>>) => Promise<number>,
   page: (id: number) => string,
 ) {
   const m = await requireMember(request, permission);
-  const r = await readForm(request, schema);
+  const r = await readForm(request, v.object({ ...schema.entries, pageWorkspaceId: PageWorkspaceId }));
   if (!r.ok) return invalid(r.errors);
-  throw redirect(page(await create(viewerOf(m), r.value)));
+  // The generic object's output loses its keys' types here: the page's id is the number PageWorkspaceId makes, the rest `schema`'s.
+  const { pageWorkspaceId, ...value } = r.value as { pageWorkspaceId: number };
+  const stale = staleWorkspacePage(m, pageWorkspaceId);
+  if (stale) return invalid({ _form: stale }, 409);
+  throw redirect(page(await create(viewerOf(m), value as v.InferOutput<v.ObjectSchema<E, undefined>>)));
 }
 
 /**
@@ -132,6 +137,18 @@ export function staleWorkspacePage(m: Member, pageWorkspaceId: number): string |
     `Nothing was changed: this page was for ${shown ? `the workspace “${shown.name}”` : "a workspace you are no longer in"}, ` +
     `and you are now working in “${m.workspace.name}” (switched in another tab or window). Reload the page and try again.`
   );
+}
+
+/**
+ * For an action that reads its body as FormData (the field-check form and the phone's queue): the page's
+ * workspace as posted (`raw`, the form's `pageWorkspaceId`) refused — 400 when missing (a page from before the
+ * field), 409 when the session has moved to another workspace (`staleWorkspacePage`) — or null to go on.
+ */
+export function pageWorkspaceRefusal(m: Member, raw: FormDataEntryValue | null): { status: 400 | 409; errors: FieldErrors } | null {
+  const r = v.safeParse(PageWorkspaceId, typeof raw === "string" ? raw : undefined);
+  if (!r.success) return { status: 400, errors: { pageWorkspaceId: r.issues[0].message } };
+  const stale = staleWorkspacePage(m, r.output);
+  return stale ? { status: 409, errors: { _form: stale } } : null;
 }
 
 export type ApiCaller = {

@@ -9,7 +9,7 @@ import { PhotoRejected, readPhotos } from "./photos.server";
 import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
 
 /** Form fields that say how to record, not what was read (never stored among the readings). */
-const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos"] as const;
+const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos", "pageWorkspaceId"] as const;
 
 export type SubmitOutcome =
   | { ok: true; id: number; duplicate: boolean }
