@@ -18,3 +18,16 @@ export function tracedSource(filename: string, type: string, page: number | null
 }
 
 export const TRACE_CAUTION = "Traced data is approximate: check it against the datasheet before relying on a selection.";
+
+/**
+ * Whether a library revision's curves were traced, and from what: its upload's source line while the upload is linked
+ * (an upload with no source was not traced), else — the upload no longer linked — what the revision's note records
+ * (`importUpload` writes "<source>. <TRACE_CAUTION> <the user's note>"). Null when not traced. The caution is the tracer's own.
+ * @param note the revision's note as stored
+ * @param upload the revision's upload (its source), or null when the revision links none any more
+ */
+export function tracedOrigin(note: string, upload: { source: string | null } | null): { source: string; caution: string } | null {
+  if (upload) return upload.source ? { source: upload.source, caution: TRACE_CAUTION } : null;
+  const at = note.indexOf(`. ${TRACE_CAUTION}`);
+  return at > 0 ? { source: note.slice(0, at), caution: TRACE_CAUTION } : null;
+}
