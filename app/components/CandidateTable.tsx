@@ -100,8 +100,9 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       );
     }],
     ["Electrical input", (c) => totalPowerText(unitSystem, c.result?.figures?.motor?.electricalPower, basisOf(c))],
-    ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
-    ["Energy cost per year", (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
+    // At the design operating point for every running hour (hoursPerYear); the duty cycle's rows below spread the hours over part loads.
+    ["Energy per year at the operating point (electrical, every running hour there)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
+    ["Energy cost per year at the operating point", (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
     ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
   ];
   return (
