@@ -3,7 +3,7 @@
 import type { Calibration, Quantity } from "~/lib/tracer";
 import { decimalOrNaN as num } from "~/lib/shared/decimal";
 import type { Unit } from "~/lib/import";
-import { QUANTITY_LABEL, UNITS, cleared, type Curve, type Panel, type TracerState } from "./model";
+import { QUANTITY_LABEL, UNITS, cleared, withNewCurve, type Curve, type Panel, type TracerState } from "./model";
 import type { CurveProblem } from "./curve-checks";
 
 // num: the forms' strict reader (shared/decimal.ts): blank, junk and an ambiguous 1,500 are NaN (not set yet).
@@ -184,13 +184,7 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
             type="button"
             className="btn-quiet"
             data-testid={`add-${kind}`}
-            onClick={() => set((x) => {
-              const id = Math.max(0, ...x.curves.map((c) => c.id)) + 1;
-              const prev = x.curves.find((c) => c.id === x.activeCurve);
-              // A new curve starts with a blank impeller Ø (a copy of the last one made silent duplicates) and the last speed.
-              const curve: Curve = { id, panelId: x.activePanel, kind, impellerMm: NaN, speedRpm: prev?.speedRpm ?? 2900, level: 0, points: [], ...(kind === "contour" ? { closed: false } : {}) };
-              return { ...x, curves: [...x.curves, curve], activeCurve: id };
-            })}
+            onClick={() => set((x) => withNewCurve(x, kind))}
           >
             {kind === "curve" ? "Add a curve on the active panel" : "Add an iso-efficiency contour"}
           </button>

@@ -3,7 +3,7 @@
 // would vanish), an impeller Ø left blank beside curves that have one (the importer refuses a blank
 // key cell), a speed left blank, and a curve no head curve of its key takes. Invented curves.
 import { describe, expect, it } from "vitest";
-import { calibrations, csvOf, initialState, type Curve, type TracerState } from "./model";
+import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, importBlock } from "./curve-checks";
 
 const pts = (h0: number) => Array.from({ length: 10 }, (_, i) => ({ u: 100 + 50 * i, v: 500 - h0 * 8 + i * i }));
@@ -50,6 +50,14 @@ describe("curve checks before import", () => {
     expect(curveProblems(s)).toEqual([
       { curveId: 2, message: "Curve 2 (efficiency) has no head curve at 2900 rpm with impeller Ø 240 mm: it would be left out of the CSV; trace that head curve or give this one the Ø and speed of its head curve." },
     ]);
+  });
+
+  it("starts a new curve with a blank impeller Ø and the active curve's speed", () => {
+    const s = withNewCurve({ ...withCurves([curve(1, 1, 250, 50, 1450)]), activeCurve: 1 }, "curve");
+    expect(s.curves[1]).toMatchObject({ id: 2, kind: "curve", speedRpm: 1450, points: [] });
+    expect(Number.isNaN(s.curves[1].impellerMm)).toBe(true);
+    expect(s.activeCurve).toBe(2);
+    expect(withNewCurve(s, "contour").curves[2]).toMatchObject({ id: 3, kind: "contour", closed: false });
   });
 
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {

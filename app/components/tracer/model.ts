@@ -90,6 +90,18 @@ export function dataPoints(c: Curve, cals: Map<number, Calibration | string>): X
   });
 }
 
+/**
+ * The page with a new curve on the active panel, made active: a blank impeller Ø (copying the last one
+ * made a second curve of the same key, which the CSV dropped without a word) and the active curve's
+ * speed; a contour open.
+ */
+export function withNewCurve(s: TracerState, kind: Curve["kind"]): TracerState {
+  const id = Math.max(0, ...s.curves.map((c) => c.id)) + 1;
+  const prev = s.curves.find((c) => c.id === s.activeCurve);
+  const curve: Curve = { id, panelId: s.activePanel, kind, impellerMm: NaN, speedRpm: prev?.speedRpm ?? 2900, level: 0, points: [], ...(kind === "contour" ? { closed: false } : {}) };
+  return { ...s, curves: [...s.curves, curve], activeCurve: id };
+}
+
 /** The island tracer's outline for a contour: a closed loop by construction. */
 export const takeIsland = (c: Curve, points: Px[]): Curve => ({ ...c, points, closed: true });
 /** A curve with its points cleared: a contour open again (lines clicked by hand are open until closed). */
