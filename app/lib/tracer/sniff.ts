@@ -11,10 +11,22 @@ export function sniffPicture(bytes: Uint8Array): PictureType | null {
   return null;
 }
 
-/** "traced from <file>, page N" (N only for a PDF): the source line kept with the upload and the revision. */
-export function tracedSource(filename: string, type: string, page: number | null): string {
+/** The source line's room (`uploads.source`, VARCHAR(300)). */
+export const SOURCE_MAX = 300;
+
+/**
+ * "traced from <file>, page N" (N only for a PDF): the source line kept with the upload and the revision;
+ * with the page's `note` after "; " (the peak not traced: peak.ts `peakNote`), control characters made
+ * spaces, cut with "…" where the line would pass `SOURCE_MAX`.
+ */
+export function tracedSource(filename: string, type: string, page: number | null, note = ""): string {
   const name = filename.replace(/[\r\n\t]/g, " ").slice(0, 200);
-  return type === "application/pdf" && page ? `traced from ${name}, page ${page}` : `traced from ${name}`;
+  const base = type === "application/pdf" && page ? `traced from ${name}, page ${page}` : `traced from ${name}`;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is replaced
+  const n = note.replace(/[\u0000-\u001f\u007f]+/g, " ").trim();
+  if (!n) return base;
+  const room = SOURCE_MAX - base.length - 2;
+  return `${base}; ${n.length <= room ? n : `${n.slice(0, room - 1).trimEnd()}…`}`;
 }
 
 export const TRACE_CAUTION = "Traced data is approximate: check it against the datasheet before relying on a selection.";
