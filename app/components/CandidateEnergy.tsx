@@ -56,7 +56,8 @@ export function lccText(e: Energy | null | undefined, currency: string): string 
 /** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
 export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
   ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy, cycleBasis(c))],
-  ["Purchase price", (c) => moneyText(c.energy?.purchasePrice, currency)],
+  // As entered for the candidate as offered: with several pumps, the price of all of them (standby included).
+  ["Purchase price", (c) => `${moneyText(c.energy?.purchasePrice, currency)}${c.energy?.purchasePrice != null && cycleBasis(c) ? ` for all ${cycleBasis(c)!.arrangement}` : ""}`],
   ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
 ];
 
@@ -216,7 +217,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
         <Form method="post" className="no-print flex items-end gap-2">
           <input type="hidden" name="candidateId" value={c.id} />
           <label className="text-xs">
-            Purchase price ({currency || "currency"})
+            Purchase price ({currency || "currency"}){cycleBasis(c) ? `, all ${cycleBasis(c)!.arrangement}` : ""}
             <input name="purchasePrice" inputMode="decimal" className="field w-32 py-0.5" defaultValue={e?.purchasePrice != null ? String(e.purchasePrice) : ""} placeholder="optional" />
           </label>
           <button className="btn-quiet text-xs" name="intent" value="price">

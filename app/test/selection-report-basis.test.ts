@@ -7,7 +7,7 @@
 // (identical pumps share the duty equally: common practice).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { addCandidate, createProject, createSystem, getSelection, searchForSystem, selectCandidate } from "~/lib/projects";
+import { addCandidate, createProject, createSystem, getSelection, searchForSystem, selectCandidate, setCandidatePrice } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, type Adjustment } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
@@ -38,6 +38,7 @@ beforeAll(async () => {
     const systemId = await createSystem(v, project, `Booster ${name}`, name === "series" ? high : boosterInput());
     const added = await addCandidate(v, systemId, setId, adj);
     if (!added.ok) throw new Error(added.reason);
+    await setCandidatePrice(v, added.id, 300_000); // 3000.00 in the workspace's currency, as entered for the candidate as offered
     const id = await selectCandidate(v, added.id, `Booster ${name}`, "");
     got[name] = { f: renderDeep((await getSelection(v, id)).frozen, SI_UNITS), pages: await selectionPages(m, id) };
   }
@@ -102,5 +103,13 @@ describe("a single pump reads as before", () => {
     expect([...csvFigures(pages.csv).keys()].filter((k) => k.endsWith("_per_pump"))).toEqual([]);
     expect(csvHeader(pages.csv, "band")).toContain("shaft_power_w");
     expect(pages.csvText).not.toMatch(/all_duty_pumps|per pump/);
+  });
+});
+
+describe("the purchase price says what it covers", () => {
+  test("several pumps: all of them, standby included; one pump: as before", () => {
+    expect(figureCell(got.parallel.pages.html, "Purchase price")).toMatch(/^3000\.00 .* for all 2 pumps in parallel \+ 1 standby$/);
+    expect(figureCell(got.series.pages.html, "Purchase price")).toMatch(/^3000\.00 .* for all 2 pumps in series$/);
+    expect(figureCell(got.single.pages.html, "Purchase price")).not.toMatch(/for all/);
   });
 });
