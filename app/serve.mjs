@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // Dutymark's HTTP server for the production build (`npm start` runs it): Express + React Router's
 // request handler, like react-router-serve, plus what that one lacks here:
-//  - the client address handed to the app in a header it can trust (sign-in throttling per address),
+//  - the client address handed to the app in a header it can trust (sign-in throttling per address): the socket's,
+//    or behind proxies (TRUST_PROXY: hops or addresses) the one the last proxy of ours saw,
 //  - security headers on every response through helmet: a per-request nonce CSP (no inline script
 //    without it), form-action limited to our origin and the Stripe checkout, HSTS behind https,
 //  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
@@ -38,7 +39,7 @@ try {
 }
 /** Validated by app/lib/shared/env.server.ts when the build loaded (app/entry.server.tsx). */
 const settings = build.entry.module.startupSettings;
-const { port, host, trustProxy } = settings;
+const { port, host, proxyTrust } = settings;
 /**
  * app/entry.server.tsx hands these over from app/lib: lib/shared/methods.ts (two), lib/auth/csrf.server.ts and
  * lib/shared/refusal.server.ts (the shape of every answer of ours below: one place, in TypeScript, with the API's problem).
@@ -183,7 +184,10 @@ function beforeRouter(req, res, next) {
 
 const app = express();
 app.disable("x-powered-by");
-if (trustProxy) app.set("trust proxy", true);
+// Never `true` (every X-Forwarded-For entry believed: the left-most, which the client writes itself, became its address).
+// A number of hops or the proxies' addresses (TRUST_PROXY, checked in lib/shared/env.server.ts): req.ip is then the
+// address the last trusted proxy saw, whatever the client put before it.
+if (proxyTrust !== false) app.set("trust proxy", proxyTrust);
 // First, so a request's logged time is all Express does for it: from here to the last byte handed to the socket.
 if (settings.accessLog) {
   app.use((req, res, next) => {
@@ -198,7 +202,7 @@ if (settings.accessLog) {
 app.use(compression());
 app.use((req, res, next) => {
   // Overwrites anything a client sent under these names.
-  req.headers[CLIENT_IP_HEADER] = (trustProxy ? req.ip : req.socket.remoteAddress) ?? "";
+  req.headers[CLIENT_IP_HEADER] = (proxyTrust !== false ? req.ip : req.socket.remoteAddress) ?? "";
   res.locals.cspNonce = crypto.randomBytes(18).toString("base64");
   req.headers[CSP_NONCE_HEADER] = res.locals.cspNonce;
   next();

@@ -1,8 +1,7 @@
 import * as v from "valibot";
 import { data, Form, redirect, useActionData, useSearchParams } from "react-router";
 import type { Route } from "./+types/verify";
-import { verifyEmailUser } from "~/lib/auth/accounts.server";
-import { startSession } from "~/lib/auth/session.server";
+import { confirmAddressLink } from "~/lib/auth/accounts.server";
 import { readForm, safeNext } from "~/lib/shared/forms.server";
 import { Card, FormError, Notice } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -10,17 +9,19 @@ import { routeErrorBoundary } from "~/components/RouteError";
 export const meta: Route.MetaFunction = () => [{ title: "Confirm your address · Dutymark" }];
 
 // The link opens a page with a button: mail scanners that pre-fetch links do not use up the token.
-// Confirming signs the account in (the link proves the mailbox; sign-up itself starts no session, so
-// it can answer the same for a new and a known address) and goes on to `next` when there is one.
+// Confirming signs the account in when nobody is (the link proves the mailbox; sign-up itself starts no
+// session, so it can answer the same for a new and a known address) and goes on to `next` when there is one.
+// Someone signed in as another account stays signed in as it (confirmAddressLink: no login CSRF) and is told so.
 export async function action({ request }: Route.ActionArgs) {
   const r = await readForm(request, v.object({ token: v.pipe(v.string(), v.maxLength(200)), next: v.optional(v.pipe(v.string(), v.maxLength(2000))) }));
-  if (!r.ok) return { ok: false };
-  const userId = await verifyEmailUser(r.value.token);
-  if (!userId) return { ok: false };
-  const cookie = await startSession(userId, request);
+  if (!r.ok) return { ok: false as const };
+  const res = await confirmAddressLink(r.value.token, request);
+  if (res.kind === "unusable") return { ok: false as const };
   const next = safeNext(r.value.next, "");
-  if (next) throw redirect(next, { headers: { "Set-Cookie": cookie } });
-  return data({ ok: true }, { headers: { "Set-Cookie": cookie } });
+  if (res.kind === "other-account") return { ok: true as const, signedInAs: res.signedInAs, confirmed: res.confirmed, next };
+  const headers = res.kind === "signed-in" ? { "Set-Cookie": res.cookie } : undefined;
+  if (next) throw redirect(next, { headers });
+  return data({ ok: true as const }, { headers });
 }
 
 export default function Verify() {
@@ -28,7 +29,22 @@ export default function Verify() {
   const [params] = useSearchParams();
   return (
     <Card title="Confirm your e-mail address" narrow>
-      {a?.ok ? (
+      {a?.ok && "signedInAs" in a ? (
+        <div className="space-y-3">
+          <Notice>The address {a.confirmed} is confirmed.</Notice>
+          <p className="caution">
+            You are signed in as <strong>{a.signedInAs}</strong>, and you still are: this link confirmed the address of another account, <strong>{a.confirmed}</strong>,
+            {` and a confirmation link never replaces the account you are signed in as. To use that account, sign out and sign in as ${a.confirmed}.`}
+          </p>
+          <Form method="post" action="/signout">
+            <input type="hidden" name="next" value={a.next} />
+            <button className="btn">Sign out and sign in as {a.confirmed}</button>
+          </Form>
+          <a className="btn-quiet" href="/">
+            Stay signed in as {a.signedInAs}
+          </a>
+        </div>
+      ) : a?.ok ? (
         <div className="space-y-3">
           <Notice>Your address is confirmed. Thank you.</Notice>
           <a className="btn" href="/">

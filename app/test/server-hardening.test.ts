@@ -272,7 +272,7 @@ describe.skipIf(!built)("settings checked at start (app/lib/shared/env.server.ts
     expect(code).toBe(1);
     expect(stderr).toContain("Dutymark cannot start: 2 settings are wrong");
     expect(stderr).toContain("APP_URL must be a URL starting with http:// or https://");
-    expect(stderr).toContain("TRUST_PROXY must be 0 or 1");
+    expect(stderr).toContain("TRUST_PROXY must be 0, a number of proxy hops from 1 to 10, or your proxies' addresses or subnets");
     expect(stderr).not.toMatch(/\n\s+at /); // no stack trace, just the problems
     expect(await fetch(`http://127.0.0.1:${p}/livez`).then((r) => r.status).catch(() => "refused")).toBe("refused");
   }, 30_000);

@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, test } from "vitest";
 import { and, desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { emailTokens, invitations, memberships, outbox, sessions, users } from "@db/schema";
+import { emailTokens, invitations, memberships, outbox, sessions, signInAttempts, users } from "@db/schema";
 import { requestPasswordReset, resetPassword, signUp, verifyEmail } from "./accounts.server";
 import { createApiToken, revokeApiToken } from "./api-tokens.server";
 import { acceptInvitation, changeRole, invite, removeMember, revokeInvitation } from "../workspaces";
@@ -121,6 +121,34 @@ describe("sign-in checks and throttling", () => {
     const m = await makeMember("engineer");
     expect(await checkCredentials(m.email, "correct horse battery", ip)).toMatchObject({ ok: false, reason: "throttled" });
     expect((await checkCredentials(m.email, "correct horse battery", "10.4.0.1")).ok).toBe(true);
+  });
+
+  const someAddress = (prefix: string) => `${prefix}.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
+
+  test(`30 wrong passwords at once for one account from one address: at most ${THROTTLE.freePerPair} are checked, the rest throttled`, async () => {
+    const m = await makeMember("engineer");
+    const ip = someAddress("10.6");
+    // 30: a burst the review sent (every one answered "invalid" when the wait was read before any failure was written).
+    const answers = await Promise.all(Array.from({ length: 30 }, (_, i) => checkCredentials(m.email, `guess-${i}`, ip)));
+    const reasons = answers.map((a) => (a.ok ? "ok" : a.reason));
+    const checked = reasons.filter((r) => r === "invalid").length;
+    expect(checked).toBeLessThanOrEqual(THROTTLE.freePerPair); // the free failures per pair (THROTTLE, session rule)
+    expect(checked).toBeGreaterThan(0); // the first in turn finds no failure
+    expect(reasons.filter((r) => r === "throttled").length).toBe(30 - checked);
+    // The failures counted are the guesses checked; a throttled one counts nothing.
+    const failed = await db().select().from(signInAttempts).where(and(eq(signInAttempts.emailKey, m.email), eq(signInAttempts.ipAddress, ip)));
+    expect(failed.map((r) => r.success)).toEqual(Array(checked).fill(false));
+    // The owner elsewhere is not held up.
+    expect((await checkCredentials(m.email, "correct horse battery", someAddress("10.7"))).ok).toBe(true);
+  }, 60_000);
+
+  test("two sign-ins at once with the right password (a double click) both succeed and count as no failure", async () => {
+    const m = await makeMember("engineer");
+    const ip = someAddress("10.8");
+    const answers = await Promise.all([0, 1].map(() => checkCredentials(m.email, "correct horse battery", ip)));
+    expect(answers.map((a) => a.ok)).toEqual([true, true]);
+    const rows = await db().select().from(signInAttempts).where(and(eq(signInAttempts.emailKey, m.email), eq(signInAttempts.ipAddress, ip)));
+    expect(rows.map((r) => r.success)).toEqual([true, true]);
   });
 });
 

@@ -5,7 +5,7 @@ import { and, eq, isNull } from "drizzle-orm";
 import { affectedRows, db, withTransaction, type Db } from "@db/client.server";
 import { apiTokens, emailTokens, memberships, sessions, signInAttempts, users, workspaces } from "@db/schema";
 import { data } from "react-router";
-import { hashPassword, normaliseEmail } from "./session.server";
+import { getAuth, hashPassword, normaliseEmail, startSession } from "./session.server";
 import { hashSecret, newSecret } from "./secrets.server";
 import { queueMail } from "../mail/outbox.server";
 import { hitRateLimit } from "../shared/ratelimit.server";
@@ -114,18 +114,41 @@ async function consumeEmailToken(tx: Db, secret: string, purpose: "verify" | "re
   return affectedRows(r) === 1 ? t.userId : null;
 }
 
-/** Confirms the address of the link's user; returns that user's id, or null. */
-export async function verifyEmailUser(secret: string): Promise<string | null> {
+/** Confirms the address of the link's user; returns that user's id and address, or null. */
+export async function verifyEmailUser(secret: string): Promise<{ id: string; email: string } | null> {
   return withTransaction(async (tx) => {
     const userId = await consumeEmailToken(tx, secret, "verify");
     if (!userId) return null;
     await tx.update(users).set({ emailVerified: true }).where(eq(users.id, userId));
-    return userId;
+    const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, userId));
+    return { id: userId, email: u?.email ?? "" };
   });
 }
 
 export async function verifyEmail(secret: string): Promise<boolean> {
   return (await verifyEmailUser(secret)) !== null;
+}
+
+export type LinkConfirmation =
+  | { kind: "unusable" }
+  /** Nobody was signed in: the link proves the mailbox and signs its account in (sign-up starts no session). */
+  | { kind: "signed-in"; cookie: string }
+  /** Its own account was signed in already: nothing more to do. */
+  | { kind: "same-account" }
+  /** Another account is signed in and stays so: the link's address is confirmed, nobody is signed in as it. */
+  | { kind: "other-account"; signedInAs: string; confirmed: string };
+
+/**
+ * The confirmation link's button (/verify). A signed-in session is never replaced by the link's account: an
+ * attacker's own unused link, opened by someone signed in, would sign them in as the attacker (login CSRF).
+ */
+export async function confirmAddressLink(secret: string, request: Request): Promise<LinkConfirmation> {
+  const auth = await getAuth(request);
+  const confirmed = await verifyEmailUser(secret);
+  if (!confirmed) return { kind: "unusable" };
+  if (!auth) return { kind: "signed-in", cookie: await startSession(confirmed.id, request) };
+  if (auth.user.id === confirmed.id) return { kind: "same-account" };
+  return { kind: "other-account", signedInAs: auth.user.email, confirmed: confirmed.email };
 }
 
 /** /forgot: at most this many reset mails per account, and requests per client address, per hour. */

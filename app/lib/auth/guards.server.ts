@@ -8,7 +8,7 @@ import { getAuth, sessionIdOfRequest, type Auth } from "./session.server";
 import { can, READ_ONLY_PERMISSIONS, type Permission, type Role } from "./permissions";
 import { hashSecret } from "./secrets.server";
 import { forbidden, unauthorized } from "../shared/problem.server";
-import { cachedToken, rememberToken } from "./token-cache.server";
+import { cachedToken, rememberToken, tokenGeneration } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
 import { oncePerRequest, readsShared } from "../shared/request-scope.server";
 import { invalid, PageWorkspaceId, readForm, type FieldErrors } from "../shared/forms.server";
@@ -174,6 +174,8 @@ export async function requireApi(request: Request, permission: Permission): Prom
     const tokenHash = hashSecret(m[1]);
     const known = cachedToken(tokenHash);
     if (known) return authorise(known.caller, permission);
+    // Read before the lookup: a revocation meanwhile (forgetTokens) keeps this answer out of the cache.
+    const since = tokenGeneration();
     const [row] = await db()
       .select({
         id: apiTokens.id,
@@ -193,7 +195,7 @@ export async function requireApi(request: Request, permission: Permission): Prom
       await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
     }
     caller = { userId: row.userId, workspace: row.ws, role: row.role, via: "token", scope: row.scope, units: SI_UNITS };
-    rememberToken(tokenHash, { caller, tokenId: row.id, lastUsedAt: Date.now() });
+    rememberToken(tokenHash, { caller, tokenId: row.id, lastUsedAt: Date.now() }, since);
   } else {
     const auth = await getAuth(request);
     if (!auth) throw unauthorized();

@@ -2,15 +2,16 @@
 import { Lucia, TimeSpan, type Session, type User } from "lucia";
 import { DrizzleMySQLAdapter } from "@lucia-auth/adapter-drizzle";
 import { hash, verify } from "@node-rs/argon2";
-import { and, count, eq, gt, max } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { affectedRows, db } from "@db/client.server";
-import { sessions, signInAttempts, users } from "@db/schema";
+import { sessions, users } from "@db/schema";
 import { hashSecret } from "./secrets.server";
 import { settings } from "../shared/env.server";
 import { oncePerRequest } from "../shared/request-scope.server";
 import type { PresetId } from "../shared/units";
 import { readStoredUnits } from "./stored-units";
 import { CLIENT_IP_HEADER, clientIp } from "../shared/client-address";
+import { admitAttempt, attemptSucceeded } from "./sign-in-throttle.server";
 
 let luciaInstance: ReturnType<typeof makeLucia> | null = null;
 
@@ -81,38 +82,7 @@ export { CLIENT_IP_HEADER, clientIp };
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
-/**
- * Sign-in throttling (common practice, OWASP Authentication Cheat Sheet): failures are counted per
- * (account, client address) pair within a window; from the `freePerPair`-th failure on, the next try
- * from that pair must wait 2^(n − freePerPair) s after the last failure, capped at `maxDelaySeconds`.
- * The owner at another address is never held up by an attacker's failures, and nobody is locked
- * out for good. An address spraying many accounts is slowed the same way on its own count.
- */
-export const THROTTLE = { windowMinutes: 15, freePerPair: 3, perAddress: 30, maxDelaySeconds: 900 };
-
-/** Seconds to wait after the last failure, given n failures in the window. */
-export function throttleDelaySeconds(n: number, free: number): number {
-  if (n < free) return 0;
-  return Math.min(THROTTLE.maxDelaySeconds, 2 ** (n - free));
-}
-
-async function failures(where: ReturnType<typeof and>): Promise<{ n: number; last: Date | null }> {
-  const since = new Date(Date.now() - THROTTLE.windowMinutes * 60_000);
-  const [row] = await db()
-    .select({ n: count(), last: max(signInAttempts.createdAt) })
-    .from(signInAttempts)
-    .where(and(where, eq(signInAttempts.success, false), gt(signInAttempts.createdAt, since)));
-  return { n: Number(row?.n ?? 0), last: row?.last ? new Date(row.last) : null };
-}
-
-/** Seconds the (account, address) pair, or the address alone, must still wait; 0 when free to try. */
-export async function signInWait(email: string, ip: string, now = new Date()): Promise<number> {
-  const pair = await failures(and(eq(signInAttempts.emailKey, email), eq(signInAttempts.ipAddress, ip)));
-  const byAddress = ip ? await failures(eq(signInAttempts.ipAddress, ip)) : { n: 0, last: null };
-  const wait = (f: { n: number; last: Date | null }, free: number) =>
-    f.last ? Math.max(0, Math.ceil((f.last.getTime() + throttleDelaySeconds(f.n, free) * 1000 - now.getTime()) / 1000)) : 0;
-  return Math.max(wait(pair, THROTTLE.freePerPair), wait(byAddress, THROTTLE.perAddress));
-}
+export { THROTTLE, throttleDelaySeconds } from "./sign-in-throttle.server";
 
 export type SignInResult =
   | { ok: true; user: { id: string; emailVerified: boolean } }
@@ -121,20 +91,20 @@ export type SignInResult =
 
 /**
  * Checks e-mail and password with throttling per (account, address) pair and per address (kept in
- * the database so every app process sees the same counts). The reasons never say whether the
- * e-mail has an account.
+ * the database so every app process sees the same counts; sign-in-throttle.server.ts), the attempt
+ * counted before the password is checked. The reasons never say whether the e-mail has an account.
  */
 export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<SignInResult> {
   const email = normaliseEmail(emailRaw);
-  const retryAfter = await signInWait(email, ip);
-  if (retryAfter > 0) return { ok: false, reason: "throttled", retryAfter };
+  const turn = await admitAttempt(email, ip);
+  if ("retryAfter" in turn) return { ok: false, reason: "throttled", retryAfter: turn.retryAfter };
   const [u] = await db()
     .select({ id: users.id, passwordHash: users.passwordHash, emailVerified: users.emailVerified })
     .from(users)
     .where(eq(users.email, email));
   const good = u ? await verifyPassword(u.passwordHash, password) : (await verifyPassword(await dummy(), password), false);
-  await db().insert(signInAttempts).values({ emailKey: email, ipAddress: ip, success: good });
   if (!good || !u) return { ok: false, reason: "invalid" };
+  await attemptSucceeded(turn.attempt);
   return { ok: true, user: { id: u.id, emailVerified: Boolean(u.emailVerified) } };
 }
 

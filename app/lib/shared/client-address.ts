@@ -1,6 +1,7 @@
 // Who is asking, as far as the network says: the client address app/serve.mjs hands the app (its
-// own header, always overwritten there: the socket's address, or X-Forwarded-For's under TRUST_PROXY=1;
-// the dev server sets it the same way, vite.config.ts) and whether the request came through a proxy.
+// own header, always overwritten there: the socket's address, or behind proxies (TRUST_PROXY: a number of
+// hops or the proxies' addresses) the address the outermost proxy of ours saw, read from the right of
+// X-Forwarded-For; the dev server sets the socket's, vite.config.ts) and whether the request came through a proxy.
 
 export const CLIENT_IP_HEADER = "x-dutymark-client-ip";
 
@@ -23,7 +24,7 @@ const FORWARDING_HEADERS = ["forwarded", "x-forwarded-for", "x-forwarded-host", 
 /**
  * A request from this machine itself: a loopback client address and no sign of a proxy in between
  * (a reverse proxy on the same machine connects from loopback for every client on the internet).
- * `trustProxy` (TRUST_PROXY=1) means a proxy is in front, so never.
+ * `trustProxy` (TRUST_PROXY set, not 0) means a proxy is in front, so never.
  */
 export function fromThisMachine(request: Request, trustProxy: boolean): boolean {
   if (trustProxy) return false;

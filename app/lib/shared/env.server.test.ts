@@ -34,6 +34,14 @@ describe("settings", () => {
     expect(settingsProblems({ DATABASE_URL: "mariadb://u:p@127.0.0.1:3307,127.0.0.1:3308/dutymark" })).toEqual([]);
   });
 
+  test("TRUST_PROXY: none, a number of proxy hops, or the proxies' addresses and subnets — never every entry (our setting)", () => {
+    expect(settings({}).proxyTrust).toBe(false);
+    expect(settings({ TRUST_PROXY: "0" })).toMatchObject({ trustProxy: false, proxyTrust: false });
+    expect(settings({ TRUST_PROXY: "1" })).toMatchObject({ trustProxy: true, proxyTrust: 1 }); // one proxy: was `true`, every hop trusted
+    expect(settings({ TRUST_PROXY: "2" }).proxyTrust).toBe(2);
+    expect(settings({ TRUST_PROXY: " loopback, 10.0.0.0/8 ,fd00::/8, 192.0.2.10 " })).toMatchObject({ trustProxy: true, proxyTrust: ["loopback", "10.0.0.0/8", "fd00::/8", "192.0.2.10"] });
+  });
+
   test("unknown variables are ignored", () => {
     expect(settingsProblems({ SOMETHING_ELSE: "x", PATH: "/usr/bin" })).toEqual([]);
   });
@@ -47,7 +55,11 @@ describe("bad values are named, one line each", () => {
     ["PORT", "0", /^PORT must be at least 1/],
     ["PORT", "3e3", /^PORT must be a whole number/],
     ["PORT", "-1", /^PORT must be a whole number/],
-    ["TRUST_PROXY", "yes", /^TRUST_PROXY must be 0 or 1/],
+    ["TRUST_PROXY", "yes", /^TRUST_PROXY must be 0, a number of proxy hops from 1 to 10, or your proxies' addresses or subnets/],
+    ["TRUST_PROXY", "true", /^TRUST_PROXY must be 0, a number of proxy hops/], // Express's "trust every entry", the forgeable setting
+    ["TRUST_PROXY", "11", /^TRUST_PROXY must be 0, a number of proxy hops from 1 to 10/],
+    ["TRUST_PROXY", "10.0.0.0/33", /^TRUST_PROXY must be 0, a number of proxy hops/], // an IPv4 prefix is at most 32 bits
+    ["TRUST_PROXY", "10.0.0.5, proxy.internal", /^TRUST_PROXY must be 0, a number of proxy hops/], // names are not looked up
     ["NODE_ENV", "staging", /^NODE_ENV must be development, production or test/],
     ["DATABASE_URL", "postgres://u@h/db", /^DATABASE_URL must look like mariadb:\/\//],
     ["DATABASE_URL", "mariadb://u@h:notaport/db", /^DATABASE_URL must look like/],

@@ -4,6 +4,7 @@
 // app/serve.mjs before it listens) and stops the server with one line per missing or bad value.
 // DATABASE_URL is read by db/client.server.ts (the database layer imports nothing of the app) and
 // checked here too so a bad one is reported at start with the rest.
+import { isIP } from "node:net";
 import * as v from "valibot";
 import { parseDatabaseUrl } from "@db/client.server";
 
@@ -24,6 +25,31 @@ const url = (name: string, protocols: readonly string[]) =>
 const integer = (name: string, min: number, max: number) =>
   v.optional(v.pipe(v.string(), v.regex(/^\d+$/, `${name} must be a whole number from ${min} to ${max}`), v.transform(Number), v.minValue(min, `${name} must be at least ${min}`), v.maxValue(max, `${name} must be at most ${max}`)));
 
+/** Proxy hops TRUST_PROXY may name (our bound: more than a few proxies in front is a setup to describe by address). */
+export const MAX_PROXY_HOPS = 10;
+/** Names of address ranges Express's `trust proxy` (proxy-addr) knows: 127.0.0.0/8 and ::1; 169.254.0.0/16 and fe80::/10; 10/8, 172.16/12, 192.168/16 and fc00::/7. */
+const PROXY_RANGE_NAMES = ["loopback", "linklocal", "uniquelocal"];
+
+/** An address, or a subnet in CIDR notation (10.0.0.0/8, fd00::/8), or one of PROXY_RANGE_NAMES. */
+function isProxyAddress(entry: string): boolean {
+  if (PROXY_RANGE_NAMES.includes(entry)) return true;
+  const [address, prefix, ...rest] = entry.split("/");
+  const family = isIP(address);
+  if (!family || rest.length) return false;
+  if (prefix === undefined) return true;
+  return /^\d{1,3}$/.test(prefix) && Number(prefix) <= (family === 4 ? 32 : 128);
+}
+
+/** TRUST_PROXY as Express's `trust proxy` takes it: false (none), a number of hops, or the proxies' addresses. */
+function proxyTrustOf(s: string | undefined): false | number | string[] {
+  if (!s || s === "0") return false;
+  if (/^\d+$/.test(s)) return Number(s);
+  return s
+    .split(",")
+    .map((p) => p.trim())
+    .filter(Boolean);
+}
+
 /** "price_a, price_b,," → ["price_a", "price_b"]. */
 function priceList(s: string | undefined): string[] {
   return (s ?? "")
@@ -38,8 +64,21 @@ const EnvSchema = v.object({
   APP_URL: url("APP_URL", ["http:", "https:"]),
   PORT: integer("PORT", 1, 65535),
   HOST: v.optional(v.pipe(v.string(), v.minLength(1, "HOST must not be empty"))),
-  /** 1 = take the client address from X-Forwarded-For (only behind a proxy you run). */
-  TRUST_PROXY: flag("TRUST_PROXY"),
+  /**
+   * The proxies in front: 0 none; a number of hops (1 = one proxy: the client is the last X-Forwarded-For entry, the one it
+   * appended); or the proxies' addresses and subnets, comma-separated (the client is the last entry not among them).
+   */
+  TRUST_PROXY: v.optional(
+    v.pipe(
+      v.string(),
+      v.check((s) => {
+        const t = proxyTrustOf(s);
+        if (t === false) return true;
+        if (typeof t === "number") return t >= 1 && t <= MAX_PROXY_HOPS;
+        return t.length > 0 && t.every(isProxyAddress);
+      }, `TRUST_PROXY must be 0, a number of proxy hops from 1 to ${MAX_PROXY_HOPS}, or your proxies' addresses or subnets (10.0.0.5, 10.0.0.0/8, loopback…) separated by commas`),
+    ),
+  ),
   /** 0 = no access log lines. */
   ACCESS_LOG: flag("ACCESS_LOG"),
   /** Overrides the Secure cookie flag (default: on when APP_URL is https). */
@@ -87,7 +126,10 @@ export type Settings = {
   appUrl: string | null;
   port: number;
   host: string;
+  /** A proxy is in front (TRUST_PROXY set and not 0): the client address is read from X-Forwarded-For. */
   trustProxy: boolean;
+  /** Express's `trust proxy` (app/serve.mjs): false, the number of proxy hops, or the proxies' addresses and subnets. */
+  proxyTrust: false | number | string[];
   accessLog: boolean;
   cookieSecure: boolean;
   smtpUrl: string | null;
@@ -131,7 +173,8 @@ function normalise(raw: Raw): Settings {
     appUrl,
     port: raw.PORT ?? 3000,
     host: raw.HOST ?? "127.0.0.1",
-    trustProxy: raw.TRUST_PROXY === "1",
+    trustProxy: proxyTrustOf(raw.TRUST_PROXY) !== false,
+    proxyTrust: proxyTrustOf(raw.TRUST_PROXY),
     accessLog: raw.ACCESS_LOG !== "0",
     cookieSecure: raw.COOKIE_SECURE ? raw.COOKIE_SECURE === "1" : (appUrl ?? "").startsWith("https://"),
     smtpUrl: raw.SMTP_URL ?? null,
