@@ -123,7 +123,7 @@ test("a field check with a reading past a double in SI (sPressure 1e308 kPa, flo
   const post = (route: typeof fieldForm | typeof fieldSync, suffix: string, form: Record<string, string>) =>
     call(route.action as never, { path: `/field/selections/${selectionId}/${suffix}`, params: { id: String(selectionId) }, cookie: m.cookie, form });
   for (const [field, value] of [["sPressure", "1e308"], ["flow", "1e400"], ["dDiameter", "-1e308"]]) {
-    const form = fieldsForHead(25, 998.2, { flow: "0.005", [field]: value });
+    const form = fieldsForHead(25, 998.2, { flow: "0.005", [field]: value, pageWorkspaceId: String(m.workspaceId) });
     const page = await post(fieldForm, "photos", form);
     expect(page.status, `${field}=${value}`).toBe(400);
     // 1e308 is a number the reader takes, then too high for the check; 1e400 is no finite number at all: out of range.

@@ -156,7 +156,7 @@ describe.each(CASES)("a recorded check with $name", (c) => {
 
   test("the phone's retry of it is answered as already recorded, nothing recorded twice (was: a 500 the queue would retry for ever, when its result was damaged)", async () => {
     const form = new FormData();
-    for (const [k, x] of Object.entries({ ...FIELDS, clientId: s.clientId })) form.set(k, x);
+    for (const [k, x] of Object.entries({ ...FIELDS, clientId: s.clientId, pageWorkspaceId: String(m.workspaceId) })) form.set(k, x);
     const r = await call(fieldQueue.action as never, { path: `/field/selections/${s.selectionId}/checks`, params: { id: String(s.selectionId) }, cookie: m.cookie, body: form });
     expect(r.status).toBe(200);
     expect(r.body).toMatchObject({ id: s.damaged, duplicate: true });

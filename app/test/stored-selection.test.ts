@@ -190,7 +190,7 @@ describe.each(CASES)("a frozen selection with $name", (c) => {
     expect(page.status).toBe(409);
     expect((page.body as { detail: string }).detail).toContain("cannot be read");
     const form = new FormData();
-    for (const [k, x] of Object.entries({ ...fieldsForHead(38, RHO20, { flow: "0.011" }), clientId: `frozen-${s.selectionId}-queue` })) form.set(k, x);
+    for (const [k, x] of Object.entries({ ...fieldsForHead(38, RHO20, { flow: "0.011" }), clientId: `frozen-${s.selectionId}-queue`, pageWorkspaceId: String(m.workspaceId) })) form.set(k, x);
     const queued = await call(fieldQueue.action as never, { path: `/field/selections/${s.selectionId}/checks`, params: { id: String(s.selectionId) }, cookie: m.cookie, body: form });
     expect(queued.status).toBe(409);
     expect(queued.headers.get("content-type")).toBe("application/problem+json");

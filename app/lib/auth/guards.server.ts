@@ -1,5 +1,5 @@
 // Throwing guards, called first in every loader and action. The server decides; the UI only hides.
-import type * as v from "valibot";
+import * as v from "valibot";
 import { data, redirect } from "react-router";
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
@@ -11,7 +11,7 @@ import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
 import { oncePerRequest, readsShared } from "../shared/request-scope.server";
-import { invalid, readForm } from "../shared/forms.server";
+import { invalid, PageWorkspaceId, readForm } from "../shared/forms.server";
 import { viewerOf, type Viewer } from "./viewer.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
@@ -131,6 +131,38 @@ export function staleWorkspacePage(m: Member, pageWorkspaceId: number): string |
   return (
     `Nothing was changed: this page was for ${shown ? `the workspace “${shown.name}”` : "a workspace you are no longer in"}, ` +
     `and you are now working in “${m.workspace.name}” (switched in another tab or window). Reload the page and try again.`
+  );
+}
+
+/**
+ * The page's workspace as a form sent it (field `pageWorkspaceId`, read by `PageWorkspaceId`) against the session's:
+ * null when they agree; 400 when the form has none (a page from before the field); 409 in `words` (by default
+ * `staleWorkspacePage`'s) when the session has moved to another workspace since. For forms read without `readForm`
+ * (multipart, with photos).
+ */
+export function pageWorkspaceRefusal(
+  m: Member,
+  value: FormDataEntryValue | null,
+  words: (m: Member, pageWorkspaceId: number) => string | null = staleWorkspacePage,
+): { status: 400 | 409; message: string } | null {
+  const read = v.safeParse(PageWorkspaceId, typeof value === "string" ? value : undefined);
+  if (!read.success) return { status: 400, message: read.issues[0].message };
+  const stale = words(m, read.output);
+  return stale ? { status: 409, message: stale } : null;
+}
+
+/**
+ * A check kept on a phone while the session was in one workspace and sent after it moved to another: the words of
+ * the 409, naming both (the phone keeps the check and sends it once the session is back); null when they are the same.
+ */
+export function staleQueuedWorkspace(m: Member, queuedIn: number): string | null {
+  if (queuedIn === m.workspace.id) return null;
+  const was = m.workspaces.find((w) => w.id === queuedIn);
+  if (!was)
+    return `Not sent: this check was entered in a workspace you are no longer in, and you are now working in “${m.workspace.name}”. It cannot be recorded from here; it stays on this phone until you delete it.`;
+  return (
+    `Not sent: this check was entered in “${was.name}”, and you are now working in “${m.workspace.name}” (switched in another tab or window). ` +
+    `Switch back to “${was.name}” to send it; it stays on this phone until then.`
   );
 }
 

@@ -246,7 +246,7 @@ describe("recorded checks across workspaces", () => {
   let checkId = 0;
   test("the contractor records a check through the form (with a photo); the engineer is mailed; both see the same numbers", async () => {
     const fd = new FormData();
-    for (const [k, val] of Object.entries(fieldsForHead(28, RHO20, { flow: "0.012", notes: "=HYPERLINK(\"x\") valve V3 found half shut" }))) fd.append(k, val);
+    for (const [k, val] of Object.entries(fieldsForHead(28, RHO20, { flow: "0.012", notes: "=HYPERLINK(\"x\") valve V3 found half shut", pageWorkspaceId: String(con.workspaceId) }))) fd.append(k, val);
     fd.append("photos", new File([Buffer.from([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3])], "gauges.jpg", { type: "image/jpeg" }));
     const res = await call(formRoute.action as never, { path: `/field/selections/${sel.selectionId}/photos`, cookie: con.cookie, params: { id: String(sel.selectionId) }, body: fd });
     expect(res.status).toBe(302);
@@ -279,7 +279,7 @@ describe("recorded checks across workspaces", () => {
 
   test("bad readings come back with field messages and record nothing", async () => {
     const before = (await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, sel.selectionId))).length;
-    const res = await call(formRoute.action as never, { path: `/field/selections/${sel.selectionId}/photos`, cookie: con.cookie, params: { id: String(sel.selectionId) }, form: { ...fieldsForHead(28, RHO20), dPressure: "" } });
+    const res = await call(formRoute.action as never, { path: `/field/selections/${sel.selectionId}/photos`, cookie: con.cookie, params: { id: String(sel.selectionId) }, form: { ...fieldsForHead(28, RHO20), dPressure: "", pageWorkspaceId: String(con.workspaceId) } });
     expect(res.status).toBe(400);
     expect((res.body as { errors: Record<string, string> }).errors.dPressure).toBeTruthy();
     expect((await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, sel.selectionId))).length).toBe(before);

@@ -39,7 +39,7 @@ describe("field checks sent from the phone's queue", () => {
 
   const send = (clientId: string, extra: Record<string, string> = {}, photo = true) => {
     const body = new FormData();
-    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { flow: "0.012", notes: `queued ${clientId}`, clientId, basedOn: fingerprint, ...extra }))) body.append(k, v);
+    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { flow: "0.012", notes: `queued ${clientId}`, clientId, basedOn: fingerprint, pageWorkspaceId: String(con.workspaceId), ...extra }))) body.append(k, v);
     if (photo) body.append("photos", new File([PNG_1PX], "gauges.png", { type: "image/png" }));
     return call(syncRoute.action as never, { path: `/field/selections/${sel.selectionId}/checks`, cookie: con.cookie, params: { id: String(sel.selectionId) }, body });
   };
@@ -96,12 +96,12 @@ describe("field checks sent from the phone's queue", () => {
     expect((await send(clientId, {}, false)).status).toBe(201);
     const stranger = await makeMember("contractor");
     const body = new FormData();
-    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { clientId }))) body.append(k, v);
+    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { clientId, pageWorkspaceId: String(stranger.workspaceId) }))) body.append(k, v);
     const res = await call(syncRoute.action as never, { path: `/field/selections/${sel.selectionId}/checks`, cookie: stranger.cookie, params: { id: String(sel.selectionId) }, body });
     expect(res.status).toBe(404);
     const own = await storeSelection(stranger.workspaceId, stranger.userId, undefined, "Stranger");
     const body2 = new FormData();
-    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { clientId }))) body2.append(k, v);
+    for (const [k, v] of Object.entries(fieldsForHead(28, RHO20, { clientId, pageWorkspaceId: String(stranger.workspaceId) }))) body2.append(k, v);
     const taken = await call(syncRoute.action as never, { path: `/field/selections/${own.selectionId}/checks`, cookie: stranger.cookie, params: { id: String(own.selectionId) }, body: body2 });
     expect(taken.status).toBe(409);
     expect(await rowsOf(clientId)).toHaveLength(1);

@@ -1,0 +1,118 @@
+// The phone's send queue (sync.ts) against the server's answers, with the IndexedDB queue kept in memory and
+// fetch answering as the route does (its answers are proved against MariaDB in
+// app/lib/fieldchecks/sync-guards.server.test.ts and taken-at.server.test.ts).
+import { beforeEach, describe, expect, test, vi } from "vitest";
+import type { QueuedCheck } from "./queue";
+
+const store = vi.hoisted(() => new Map<string, unknown>());
+vi.mock("./queue", () => ({
+  putQueued: async (c: { clientId: string }) => void store.set(c.clientId, c),
+  deleteQueued: async (id: string) => void store.delete(id),
+  allQueued: async () => [...store.values()],
+}));
+const { sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
+
+type Sent = { url: string; body: FormData };
+let sent: Sent[] = [];
+let answers: (() => Response)[] = [];
+const json = (status: number, body: unknown) => () => new Response(JSON.stringify(body), { status, headers: { "content-type": "application/json" } });
+
+beforeEach(() => {
+  store.clear();
+  sent = [];
+  answers = [];
+  vi.stubGlobal("fetch", async (url: string, init: { body: FormData }) => {
+    sent.push({ url, body: init.body });
+    const next = answers.shift();
+    if (!next) throw new Error("no answer prepared");
+    return next();
+  });
+});
+
+function queued(extra: Partial<QueuedCheck> = {}): QueuedCheck {
+  return {
+    clientId: "phone-0000-aaaa",
+    owner: "user-1/41",
+    selectionId: 7,
+    selectionTitle: "Boiler feed",
+    basedOn: "f".repeat(32),
+    fields: { dPressure: "280", notes: "at handover" },
+    photos: [{ name: "gauges.jpg", type: "image/jpeg", blob: new Blob([new Uint8Array([0xff, 0xd8, 0xff])]) }],
+    createdAt: "2026-12-03T09:14:05.120Z",
+    local: { verdict: "pass", verdictText: "within tolerance", flow: 0.012, head: 28 },
+    status: "waiting",
+    ...extra,
+  };
+}
+const stored = (id = "phone-0000-aaaa") => store.get(id) as QueuedCheck | undefined;
+
+describe("the phone's send queue", () => {
+  test("a check carries the workspace it was queued in and the device's time it was taken", async () => {
+    store.set("phone-0000-aaaa", queued({ workspace: { id: 41, name: "Lowmoor Services" } }));
+    answers.push(json(201, { id: 90, duplicate: false }));
+    expect(await sendWaiting("user-1/41")).toEqual([{ clientId: "phone-0000-aaaa", id: 90, duplicate: false }]);
+    expect(sent[0].body.get("pageWorkspaceId")).toBe("41");
+    expect(sent[0].body.get("takenAt")).toBe("2026-12-03T09:14:05.120Z");
+    expect(store.size).toBe(0);
+  });
+
+  test("a check queued before the workspace was kept with it sends the workspace of its owner ('userId/workspaceId')", async () => {
+    store.set("phone-0000-aaaa", queued());
+    answers.push(json(201, { id: 91, duplicate: false }));
+    await sendWaiting("user-1/41");
+    expect(sent[0].body.get("pageWorkspaceId")).toBe("41");
+  });
+
+  test("the session has moved to another workspace (409): the check stays waiting, with the server's words, never 'refused'", async () => {
+    store.set("phone-0000-aaaa", queued());
+    const words = "Not sent: this check was entered in “Lowmoor Services”, and you are now working in “Harrow Vell”. Switch back to “Lowmoor Services” to send it.";
+    answers.push(json(409, { otherWorkspace: words }));
+    expect(await sendWaiting("user-1/41")).toEqual([]);
+    expect(stored()).toMatchObject({ status: "waiting", message: words });
+    // Back in Lowmoor, the next run sends it and the words go with it.
+    answers.push(json(201, { id: 92, duplicate: false }));
+    expect(await sendWaiting("user-1/41")).toHaveLength(1);
+    expect(store.size).toBe(0);
+  });
+
+  test("an amendment of a version amended meanwhile is a conflict the user resolves by amending the latest version", async () => {
+    store.set("phone-0000-aaaa", queued({ fields: { dPressure: "280", amends: "55" } }));
+    answers.push(json(409, { conflict: "Not recorded: check 55 (version 1) was amended meanwhile: version 2 (check 60) …", latest: { id: 60, version: 2 } }));
+    await sendWaiting("user-1/41");
+    const c = stored()!;
+    expect(c).toMatchObject({ status: "conflict", latest: { id: 60, version: 2 } });
+    answers.push(json(201, { id: 61, duplicate: false }));
+    expect(await sendAsAmendmentOfLatest(c)).toEqual({ clientId: "phone-0000-aaaa", id: 61, duplicate: false });
+    expect(sent[1].body.get("amends")).toBe("60");
+    expect(sent[1].body.get("basedOn")).toBe("f".repeat(32)); // a changed selection is still caught
+    expect(store.size).toBe(0);
+  });
+
+  test("refused for its photos (413 from the body limit, or 422 naming the photos): marked so, and sent again without them", async () => {
+    store.set("phone-0000-aaaa", queued());
+    answers.push(() => new Response("<html>too large</html>", { status: 413, headers: { "content-type": "text/html" } }));
+    await sendWaiting("user-1/41");
+    expect(stored()).toMatchObject({ status: "refused", refusedFor: "photos" });
+    expect(stored()!.message).toMatch(/at most 11\.5 MB in one check/);
+    answers.push(json(201, { id: 93, duplicate: false }));
+    expect(await sendWithoutPhotos(stored()!)).toMatchObject({ id: 93 });
+    expect(sent[1].body.getAll("photos")).toHaveLength(0);
+    expect(store.size).toBe(0);
+    store.set("phone-0000-aaaa", queued());
+    answers.push(json(422, { errors: { photos: "gauges.jpg is not a JPEG, PNG or WebP image." } }));
+    await sendWaiting("user-1/41");
+    expect(stored()).toMatchObject({ status: "refused", refusedFor: "photos", message: "gauges.jpg is not a JPEG, PNG or WebP image." });
+  });
+
+  test("a device id another user recorded (409 client-id-taken): the check is sent again under a new id, never deleted as sent", async () => {
+    store.set("phone-0000-aaaa", queued());
+    answers.push(json(409, { title: "Conflict", status: 409, detail: "That check id is already used by another check.", code: "client-id-taken" }));
+    answers.push(json(201, { id: 94, duplicate: false }));
+    const done = await sendWaiting("user-1/41");
+    expect(done).toHaveLength(1);
+    expect(done[0].id).toBe(94);
+    expect(done[0].clientId).not.toBe("phone-0000-aaaa");
+    expect(sent[1].body.get("clientId")).toBe(done[0].clientId);
+    expect(store.size).toBe(0);
+  });
+});
