@@ -43,6 +43,11 @@ export const workspaces = mysqlTable(
     subscriptionStatus: varchar("subscription_status", { length: 32 }),
     currentPeriodEnd: datetime("current_period_end", { mode: "date" }),
     cancelAtPeriodEnd: boolean("cancel_at_period_end").notNull().default(false),
+    /**
+     * When an Upgrade began opening a Stripe checkout for the workspace (UTC_TIMESTAMP(), written and compared in SQL
+     * only: app/lib/billing/checkout-claim.server.ts); null when none is being opened. One at a time, two minutes at most.
+     */
+    checkoutStartedAt: datetime("checkout_started_at", { mode: "string" }),
     /** ISO 4217 code of the money the workspace's tariffs and energy costs are in. */
     currency: varchar("currency", { length: 3 }).notNull().default("EUR"),
     createdAt: createdAt(),

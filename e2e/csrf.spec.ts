@@ -8,9 +8,9 @@ import { signIn } from "./helpers";
 const UI_ACTIONS = [
   "/signup", "/signin", "/signout", "/verify", "/forgot", "/reset", "/account", "/workspace", "/workspace/new",
   "/workspace/billing", "/invite/abc", "/dev/mailbox", "/libraries", "/libraries/1", "/libraries/1/uploads/1",
-  "/projects", "/projects/1", "/projects/1/share", "/systems/1", "/systems/1/search",
+  "/projects", "/projects/1", "/projects/1/share", "/systems/1", "/systems/1/search", "/libraries/1/trace",
 ];
-const RESOURCE_ACTIONS = ["/libraries/1/upload", "/field/selections/1/photos", "/api/v1/systems/1/preview", "/api/v1/libraries/1/upload"];
+const RESOURCE_ACTIONS = ["/libraries/1/upload", "/libraries/1/trace/upload", "/field/selections/1/photos", "/api/v1/systems/1/preview", "/api/v1/libraries/1/upload"];
 
 test("every action refuses a cross-site POST (foreign Origin, or none at all)", async ({ page }) => {
   await signIn(page, "admin@kestrel.example");

@@ -7,8 +7,13 @@ import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/l
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
 import { column, moneySumNote, moneyText, printedSum } from "~/components/energy-numbers";
+import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 
-type Cand = { id: number; label: string; energy?: Energy | null };
+/** A candidate with its energy; `adjustment` says how many duty pumps the cycle's power and energy are for (absent: one). */
+type Cand = { id: number; label: string; energy?: Energy | null; adjustment?: { arrangement: "single" | "parallel" | "series"; dutyPumps: number; standbyPumps?: number } };
+
+/** The basis of a candidate's cycle figures (lib/projects/power-basis.ts): null for a single pump. */
+export const cycleBasis = (c: Cand): PumpsBasis | null => (c.adjustment ? pumpsBasis(c.adjustment) : null);
 type Cycle = NonNullable<Energy["cycle"]>;
 
 /**
@@ -26,11 +31,14 @@ export const cycleColumns = (cycle: Cycle) => ({
   energy: column(cycle.steps.map((s) => s.energyKWh), cycle.annualEnergyKWh),
 });
 
-/** The cycle's energy per year as shown in the table and the printed report, marked when incomplete or when no hours are given. */
-export function cycleEnergyText(e: Energy | null | undefined): string {
+/**
+ * The cycle's energy per year as shown in the table and the printed report, marked when incomplete or when no hours are
+ * given; "for 2 duty pumps" after it when `basis` names several (the printed line says so before it instead).
+ */
+export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis | null = null): string {
   if (!e?.cycle) return e?.cycleError ?? "—";
   if (e.cycle.totalHours === 0) return "— (no operating hours given)";
-  return `${cycleColumns(e.cycle).energy.total} kWh${incompleteMark(e.cycle)}`;
+  return `${cycleColumns(e.cycle).energy.total} kWh${basis ? ` ${basis.forAll}` : ""}${incompleteMark(e.cycle)}`;
 }
 
 /** The life-cycle cost's plausibility warnings (engine lifeCycleCost.ts; none in selections frozen before them). */
@@ -47,7 +55,7 @@ export function lccText(e: Energy | null | undefined, currency: string): string 
 
 /** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
 export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
-  ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy)],
+  ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy, cycleBasis(c))],
   ["Purchase price", (c) => moneyText(c.energy?.purchasePrice, currency)],
   ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
 ];
@@ -100,6 +108,11 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
         <span className="mr-1 inline-block rounded bg-slate-800 px-1 text-xs text-white">{n}</span>
         {c.label}
       </h3>
+      {e?.cycle && cycleBasis(c) ? (
+        <p className="text-xs text-slate-600" data-testid={`cycle-basis-${c.id}`}>
+          {cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the {cycleBasis(c)!.together}{c.adjustment?.standbyPumps ? " (standby pumps do not run)" : ""}; each motor is one pump&apos;s.
+        </p>
+      ) : null}
       {!e ? <p className="text-xs text-slate-600">Not computed.</p> : e.cycleError ? <p className="text-xs text-duty-ink">{e.cycleError}.</p> : null}
       {e?.costMissing ? (
         <p className="text-xs text-duty-ink" data-testid={`cost-missing-${c.id}`}>

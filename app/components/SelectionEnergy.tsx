@@ -1,12 +1,15 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
 import type { CandidateEnergy } from "~/lib/projects/energy";
-import { CandidateCycle, cycleEnergyText, incompleteMark, lccText } from "~/components/CandidateEnergy";
+import { CandidateCycle, cycleBasis, cycleEnergyText, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleNoteLines } from "~/components/cycle-notes";
 import type { UnitChoice } from "~/lib/shared/units";
 
-export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; label: string; energy?: CandidateEnergy | null }; unitSystem: UnitChoice; currency: string }) {
+type Cand = Parameters<typeof cycleBasis>[0] & { energy?: CandidateEnergy | null };
+
+export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSystem: UnitChoice; currency: string }) {
   const e = c.energy;
+  const basis = cycleBasis(c);
   if (!e) return null; // selections frozen before load profiles have none
   return (
     <section className="panel break-inside-avoid space-y-2" aria-labelledby="sel-energy-h">
@@ -17,8 +20,8 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: { id: number; 
         Control: {e.controlLabel}. Profile: {e.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {e.profileLabel}.
       </p>
       {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
-      <p className="hidden text-xs print:block">
-        {e.cycle ? `Energy per year over ${e.cycle.steps.length} steps: ${cycleEnergyText(e)}` : e.cycleError}
+      <p className="hidden text-xs print:block" data-testid="energy-print">
+        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} steps: ${cycleEnergyText(e)}` : e.cycleError}
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
         {e.lcc ? ` (${e.lcc.source})` : ""}.
       </p>

@@ -5,7 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
-import { CandidateTable } from "./workbench";
+import { CandidateTable } from "./CandidateTable";
 import { bepPercentText, npshMarginText } from "./candidate-figures";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/candidate-input";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";

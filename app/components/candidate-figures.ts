@@ -1,6 +1,6 @@
 // The candidates table's figures that sit beside a status they decide (POR, NPSH), as text in the
 // reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
-// product concludes at the edges"). Pure; used by CandidateTable in ./workbench.tsx and the search page's rows.
+// product concludes at the edges"). Pure; used by CandidateTable in ./CandidateTable.tsx and the search page's rows.
 import { POR_FRACTION } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 import type { NpshJudgement } from "~/lib/projects/candidate-judgement";

@@ -1,14 +1,10 @@
-// Pieces of the system page and the selection report: the chart built from a workbench, the
-// per-run table and the candidate comparison table. All inputs SI; display through ./units.
+// Pieces of the system page and the selection report: the chart built from a workbench, the per-run table, the
+// system's warnings and the verdict badge (the candidates table is ./CandidateTable.tsx). All inputs SI; display through ./units.
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQ, type UnitChoice } from "~/lib/shared/units";
-import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText } from "./candidate-figures";
+import { fmtFlow, fmtHead, fmtNum, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
-import type { BandPoint } from "~/lib/projects/candidate-judgement";
-import { energyRows } from "~/components/CandidateEnergy";
-import { amountText, moneyText } from "~/components/energy-numbers";
 import { ListTable } from "./ListTable";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -98,7 +94,17 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
   );
 }
 
-const yes = (b: boolean | null | undefined, ok: string, bad: string) => (b == null ? "—" : b ? ok : bad);
+/** The system curve's own warnings (flow regime, method limits), as the system page and the report show them. */
+export function SystemWarnings({ warnings }: { warnings: readonly string[] | undefined }) {
+  if (!warnings?.length) return null;
+  return (
+    <ul className="text-xs text-duty-ink" data-testid="system-warnings">
+      {warnings.map((w, i) => (
+        <li key={i}>▲ {w}</li>
+      ))}
+    </ul>
+  );
+}
 
 const VERDICT_TONE: Record<Verdict["status"], string> = {
   meets: "bg-emerald-100 text-emerald-900",
@@ -125,137 +131,6 @@ export function VerdictView({ verdict, compact, testId }: { verdict: Verdict | n
           <p className="mt-1 text-xs text-slate-500">Rule — {verdict.rule}</p>
         </>
       )}
-    </div>
-  );
-}
-
-/** "a – b" over the band's edges (one value when they agree to the shown digits). */
-function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | null, fmt: (x: number | null) => string): string {
-  const xs = (band ?? []).map(pick);
-  if (xs.length === 0) return "—";
-  const shown = xs.map((x) => fmt(x));
-  return shown.every((t) => t === shown[0]) ? shown[0] : shown.join(" – ");
-}
-
-/** Side-by-side figures of the candidates at their operating points. */
-export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
-  if (view.candidates.length === 0) return null;
-  const rows: [string, (c: Cand) => React.ReactNode][] = [
-    ["Library", (c) => c.library],
-    ["Adjustment", (c) => adjustmentText(c, unitSystem).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} />)],
-    ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
-    ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
-    ["Crossing", (c) => (c.error ? "—" : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
-    ["Band edges", (c) => (c.result?.band?.length ? c.result.band.map((b) => b.edge).join(" – ") : "—")],
-    ["Flow over the band", (c) => <span data-testid={`band-flow-${c.id}`}>{range(c.result?.band, (b) => b.flow, (x) => fmtFlow(unitSystem, x))}</span>],
-    ["Head over the band", (c) => range(c.result?.band, (b) => b.head, (x) => fmtHead(unitSystem, x))],
-    ["Efficiency over the band", (c) => range(c.result?.band, (b) => b.efficiency, (x) => fmtPct(x))],
-    ["Shaft power over the band", (c) => range(c.result?.band, (b) => b.shaftPower, (x) => fmtPower(unitSystem, x))],
-    ["NPSH margin over the band", (c) => {
-      const n = c.result?.npsh;
-      const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
-      return (
-        <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
-          {npshJudgedRange(n) ?? range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
-          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — {npshLowestText(unitSystem, n)} ({n.status})</span> : null}
-        </span>
-      );
-    }],
-    ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
-    ["Shaft power", (c) => fmtPower(unitSystem, c.result?.figures?.shaftPower)],
-    ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
-    ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
-    ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(c.result.figures.npshMarginRatio, c.result.npsh?.requiredMargin)} ({c.result.figures.npshStatus})</span> : "—")],
-    ["Largest power on curve", (c) => fmtPower(unitSystem, c.result?.figures?.maxPower)],
-    ["Motor", (c) => {
-      const f = c.result?.figures;
-      const mo = f?.motor;
-      if (!f || !mo) return f?.motorLimit != null ? `${fmtPower(unitSystem, f.motorLimit)} limit` : "—";
-      return (
-        <div>
-          <div>
-            {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}` : "—"}
-            {f.motorLimit != null ? ` · ${f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load` : ""}
-          </div>
-          <div className="text-xs text-slate-600">Suggested: {mo.suggestionBasis}.</div>
-        </div>
-      );
-    }],
-    ["Motor and drive efficiency", (c) => {
-      const mo = c.result?.figures?.motor;
-      if (!mo) return "—";
-      return (
-        <div>
-          <div>
-            motor {fmtPct(mo.efficiency)} ({mo.ieClass}){mo.driveEfficiency != null ? ` · drive ${fmtPct(mo.driveEfficiency, 0)}` : " · no drive"}
-          </div>
-          <div className="text-xs text-slate-600">
-            {mo.efficiencySource}
-            {mo.driveSource ? `; ${mo.driveSource}` : ""}
-          </div>
-        </div>
-      );
-    }],
-    ["Electrical input", (c) => fmtPower(unitSystem, c.result?.figures?.motor?.electricalPower)],
-    ["Energy per year (electrical)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh` : "—")],
-    ["Energy cost per year", (c) => moneyText(c.result?.figures?.annualCost, c.result?.figures?.motor?.currency ?? "")],
-    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
-  ];
-  return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Candidates compared">
-        <thead>
-          <tr className="text-left">
-            <th className="py-1 pr-2 text-slate-600">Figure</th>
-            {view.candidates.map((c, i) => (
-              <th key={c.id} className="min-w-40 px-2 align-bottom">
-                <span className="mr-1 inline-block rounded bg-slate-800 px-1 text-xs text-white">{i + 1}</span>
-                {c.label}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map(([label, cell]) => (
-            <tr key={label} className="border-t border-slate-100 align-top">
-              <th scope="row" className="py-1 pr-2 text-left font-normal text-slate-600">
-                {label}
-              </th>
-              {view.candidates.map((c) => (
-                <td key={c.id} className="px-2 py-1">
-                  {cell(c)}
-                </td>
-              ))}
-            </tr>
-          ))}
-          {view.candidates.some((c) => c.result?.warnings.length) ? (
-            <tr className="border-t border-slate-100 align-top">
-              <th scope="row" className="py-1 pr-2 text-left font-normal text-slate-600">
-                Notes
-              </th>
-              {view.candidates.map((c) => (
-                <td key={c.id} className="px-2 py-1 text-xs text-duty-ink">
-                  {c.result?.ratioNote ? <div>Ratio {c.result.ratioNote}.</div> : null}
-                  {c.result?.warnings.map((w, j) => (
-                    <div key={j}>▲ {w}</div>
-                  ))}
-                </td>
-              ))}
-            </tr>
-          ) : null}
-          {actions ? (
-            <tr className="no-print border-t border-slate-100 align-top">
-              <td />
-              {view.candidates.map((c) => (
-                <td key={c.id} className="px-2 py-2">
-                  {actions(c)}
-                </td>
-              ))}
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
     </div>
   );
 }

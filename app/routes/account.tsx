@@ -5,9 +5,9 @@ import { deviceId, listSessions, revokeDevice } from "~/lib/auth/session.server"
 import { sendVerification, updateProfile } from "~/lib/auth/accounts.server";
 import { unitsNotice } from "~/lib/auth/stored-units";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/auth/api-tokens.server";
-import { requireMember } from "~/lib/auth/guards.server";
-import { IdField, invalid, Name, readForm } from "~/lib/shared/forms.server";
-import { Field, FormOutcome, Notice } from "~/components/forms";
+import { requireMember, staleWorkspacePage } from "~/lib/auth/guards.server";
+import { IdField, invalid, Name, PageWorkspaceId, readForm } from "~/lib/shared/forms.server";
+import { Field, FormOutcome, Notice, PageWorkspaceField } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { ListTable } from "~/components/ListTable";
 import { PostButton } from "~/components/PostButton";
@@ -48,7 +48,9 @@ const Intent = v.variant("intent", [
   v.object({ intent: v.literal("profile"), name: Name("your name"), unitSystem: v.picklist(PRESET_IDS, "Pick SI or US units."), ...UnitPicks }),
   v.object({ intent: v.literal("resend") }),
   v.object({ intent: v.literal("revoke-device"), sessionId: v.pipe(v.string(), v.maxLength(255)) }),
-  v.object({ intent: v.literal("create-token"), name: Name("a token name", 80), scope: v.picklist(["read", "write"], "Pick a scope.") }),
+  // A token belongs to the workspace the page showed (`pageWorkspaceId`, checked by `staleWorkspacePage`). The other
+  // intents act on the account (profile, devices) or on one token by its id (revoke), whatever the workspace.
+  v.object({ intent: v.literal("create-token"), name: Name("a token name", 80), scope: v.picklist(["read", "write"], "Pick a scope."), pageWorkspaceId: PageWorkspaceId }),
   v.object({ intent: v.literal("revoke-token"), tokenId: IdField }),
 ]);
 
@@ -72,6 +74,8 @@ export async function action({ request }: Route.ActionArgs) {
       if (!(await revokeDevice(m.user.id, f.sessionId))) return invalid({ _form: "No such device." }, 404);
       return { notice: "That device is signed out." };
     case "create-token": {
+      const stale = staleWorkspacePage(m, f.pageWorkspaceId);
+      if (stale) return invalid({ _form: stale }, 409);
       if (!m.user.emailVerified) return invalid({ _form: "Confirm your e-mail address before creating API tokens (the link is in your inbox; you can ask for a new one below)." }, 403);
       const { token } = await createApiToken({ userId: m.user.id, workspaceId: m.workspace.id, name: f.name, scope: f.scope });
       return { notice: "Token created. Copy it now: it is shown only this once.", token };
@@ -92,7 +96,7 @@ export default function Account() {
     <div className="space-y-6">
       <h1 className="text-2xl font-bold text-brand-900">Your account</h1>
       {params.get("welcome") ? <Notice>Welcome to Dutymark. We sent a link to {d.user.email} to confirm the address.</Notice> : null}
-      <FormOutcome notice={notice} error={errors._form} />
+      <FormOutcome notice={notice} error={errors._form ?? errors.pageWorkspaceId} />
       {a?.token ? (
         <div className="panel border-duty">
           <p className="text-sm font-semibold">New API token (shown once):</p>
@@ -181,6 +185,7 @@ export default function Account() {
         )}
         <Form method="post" className="flex flex-wrap items-end gap-3">
           <input type="hidden" name="intent" value="create-token" />
+          <PageWorkspaceField id={d.workspace.id} />
           <Field label="Token name" name="name" error={errors.name} required />
           <div>
             <label className="label" htmlFor="f-scope">

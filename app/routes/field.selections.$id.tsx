@@ -5,7 +5,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { readFormSafe, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { checkPage } from "~/lib/fieldchecks/page.server";
-import { submitCheckForm, typedFields } from "~/lib/fieldchecks/submit.server";
+import { submitCheckForm } from "~/lib/fieldchecks/submit.server";
 import type { CheckFields } from "~/lib/fieldchecks";
 import { FieldCaution } from "~/components/fieldcheck";
 import { CheckForm } from "~/components/field/CheckForm";
@@ -18,8 +18,8 @@ import { renderDeep } from "~/lib/shared/units";
 // GET /field/selections/:id — the check form (phone first, works offline once opened) and the
 // selection's check history.
 // POST /field/selections/:id/photos (same module; the path ends in /photos for the 12 MB body limit)
-// — the form without JavaScript: records a check with its photos, or an amendment (field `amends`), in the
-// workspace the page was for (`pageWorkspaceId`: 409 when the session has moved since, DEVELOPERS.md).
+// — the form without JavaScript: records a check with its photos, or an amendment (field `amends`), for the
+// workspace the page showed (`pageWorkspaceId`: 409 when the session has switched since, 400 when missing).
 // With JavaScript the form goes through the phone's queue to /field/selections/:id/checks.
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Field check · ${data?.selection.title ?? "Selection"} · Dutymark` }, { name: "theme-color", content: "#0d4a45" }];
@@ -31,21 +31,27 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const page = await checkPage(viewerOf(member), selectionId, member.user.units, readQuery(url, "amend", 20));
   const owner = `${member.user.id}/${member.workspace.id}`;
-  // The workspace the page is for: its form records there, and a check queued on the phone is sent only there.
-  const workspace = { id: member.workspace.id, name: member.workspace.name };
-  return { ...renderDeep(page, member.user.units), owner, workspace, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
+  return { ...renderDeep(page, member.user.units), owner, workspaceId: member.workspace.id, mayWrite: can(member.role, "fieldcheck.write"), unitSystem: member.user.units };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const member = await requireMember(request, "fieldcheck.write");
   const selectionId = readId(params.id);
   const form = await readFormSafe(request);
-  const stale = pageWorkspaceRefusal(member, form.get("pageWorkspaceId"));
-  if (stale) return data({ errors: { _form: stale.message }, fields: typedFields(form) }, { status: stale.status });
+  // A check is recorded for the workspace the page showed, or not at all (the selection may be open to both).
+  const refused = pageWorkspaceRefusal(member, form.get("pageWorkspaceId"));
+  if (refused) return data({ errors: refused.errors, fields: typedFields(form) }, { status: refused.status });
   const outcome = await submitCheckForm(viewerOf(member), selectionId, form);
   if (outcome.ok) throw redirect(`/field/checks/${outcome.id}?recorded=1`);
   const errors = "conflict" in outcome ? { _form: outcome.conflict } : outcome.errors;
   return data({ errors: renderDeep(errors, member.user.units), fields: outcome.fields }, { status: outcome.status });
+}
+
+/** What was typed, to draw the form again as it was (photos are files: chosen again). */
+function typedFields(form: FormData): CheckFields {
+  const fields: CheckFields = {};
+  for (const [key, value] of form.entries()) if (typeof value === "string") fields[key] = value;
+  return fields;
 }
 
 export default function FieldSelection() {
@@ -62,7 +68,7 @@ export default function FieldSelection() {
       <OfflineReady kept={kept} />
       <PendingChecks pending={pending} unitSystem={page.unitSystem} />
       {page.mayWrite ? (
-        <CheckForm selection={selection} owner={page.owner} workspace={page.workspace} units={page.unitSystem} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
+        <CheckForm selection={selection} owner={page.owner} workspaceId={page.workspaceId} units={page.unitSystem} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
       ) : (
         <p className="panel text-sm">Your role can read field checks but not record them.</p>
       )}

@@ -29,6 +29,8 @@ const ImportSchema = v.object({
   intent: v.literal("import"),
   csv: v.pipe(v.string(), v.minLength(1, "Nothing was traced yet."), v.maxLength(MAX_TRACED_CSV_BYTES, "Too many traced points.")),
   page: v.optional(v.pipe(v.string(), v.regex(/^\d{1,6}$/, "Bad page number."), v.transform(Number))),
+  // What the page did not trace (the peak inside the innermost contour: lib/tracer/peak.ts), for the source line.
+  note: v.optional(v.pipe(v.string(), v.maxLength(2000, "The note on the traced points is too long.")), ""),
 });
 
 // POST intent=import: the traced points (our CSV, built in the page) become an upload of the library
@@ -40,7 +42,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const r = await readForm(request, ImportSchema);
   if (!r.ok) throw invalid(r.errors);
   try {
-    const uploadId = await storeTracedCsv(viewerOf(m), libraryId, pictureId, r.value.csv, r.value.page ?? null);
+    const uploadId = await storeTracedCsv(viewerOf(m), libraryId, pictureId, r.value.csv, r.value.page ?? null, r.value.note);
     throw redirect(`/libraries/${libraryId}/uploads/${uploadId}`);
   } catch (e) {
     if (e instanceof UploadRejected) return { error: e.message };

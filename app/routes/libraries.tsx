@@ -6,7 +6,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { createLibrary, listLibraries } from "~/lib/libraries";
 import { can } from "~/lib/auth/permissions";
 import { FreeText, Name } from "~/lib/shared/forms.server";
-import { Field } from "~/components/forms";
+import { Field, FormError, PageWorkspaceField } from "~/components/forms";
 import { AccessBadge } from "~/components/library-bits";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { useFormResult } from "~/components/useFormResult";
@@ -21,6 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { list, canWrite: can(m.role, "library.write"), workspace: m.workspace };
 }
 
+/** The new library's fields; the page's workspace is read beside them (`createAsMember`). */
 const Schema = v.object({
   name: Name("a library name"),
   description: FreeText("description", 1000),
@@ -54,6 +55,8 @@ export default function Libraries() {
         <section className="panel">
           <h2 className="text-lg font-semibold">New library</h2>
           <Form method="post" className="mt-2 grid max-w-xl gap-3">
+            <PageWorkspaceField id={d.workspace.id} />
+            <FormError error={errors._form ?? errors.pageWorkspaceId} />
             <Field label="Name" name="name" error={errors.name} required />
             <Field label="Description" name="description" error={errors.description} hint="What pumps, which vendor, which speeds." />
             <div>

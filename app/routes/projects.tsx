@@ -6,7 +6,7 @@ import { createProject, listProjects } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { can } from "~/lib/auth/permissions";
 import { FreeText, Name, QueryFlag, readQuery } from "~/lib/shared/forms.server";
-import { Field } from "~/components/forms";
+import { Field, FormError, PageWorkspaceField } from "~/components/forms";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { useFormResult } from "~/components/useFormResult";
 import { ListTable, NameCell } from "~/components/ListTable";
@@ -16,9 +16,10 @@ export const meta: Route.MetaFunction = () => [{ title: "Projects · Dutymark" }
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   const { archived } = readQuery(request.url, v.object({ archived: QueryFlag }));
-  return { list: await listProjects(viewerOf(m), { archived }), canWrite: can(m.role, "project.write"), archived, workspace: m.workspace.name };
+  return { list: await listProjects(viewerOf(m), { archived }), canWrite: can(m.role, "project.write"), archived, workspace: m.workspace.name, workspaceId: m.workspace.id };
 }
 
+/** The new project's fields; the page's workspace is read beside them (`createAsMember`). */
 const Schema = v.object({
   name: Name("a project name", 160),
   site: FreeText("site", 200),
@@ -58,6 +59,8 @@ export default function Projects() {
         <section className="panel">
           <h2 className="text-lg font-semibold">New project</h2>
           <Form method="post" className="mt-2 grid max-w-xl gap-3">
+            <PageWorkspaceField id={d.workspaceId} />
+            <FormError error={errors._form ?? errors.pageWorkspaceId} />
             <Field label="Name" name="name" error={errors.name} required />
             <Field label="Site" name="site" error={errors.site} hint="Building, plant or address." />
             <Field label="Description" name="description" error={errors.description} />

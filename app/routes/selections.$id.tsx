@@ -4,7 +4,9 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
-import { CandidateTable, RunTable, SizingCaution, VerdictView, WorkbenchChart } from "~/components/workbench";
+import { RunTable, SizingCaution, SystemWarnings, VerdictView, WorkbenchChart } from "~/components/workbench";
+import { CandidateTable } from "~/components/CandidateTable";
+import { ReportMethods } from "~/components/ReportMethods";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
@@ -15,7 +17,7 @@ import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/lib/shared/units";
-import { fmtDate, fmtUtc } from "~/lib/shared/format";
+import { fmtDate } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.title ?? "Selection"} · Dutymark report` }];
@@ -108,6 +110,11 @@ export default function SelectionReport() {
               {f.pump.library.name} revision {f.pump.library.revision}
               {f.pump.speed ? ` · ${Math.round(f.pump.speed)} rpm` : ""}
               {f.pump.impellerDiameter ? ` · Ø${fmtQ(sys, "diameter", f.pump.impellerDiameter)}` : ""}
+              {f.pump.library.traced ? (
+                <span className="mt-0.5 block text-xs text-duty-ink" data-testid="report-traced">
+                  ▲ {f.pump.library.traced.source}. {f.pump.library.traced.caution}
+                </span>
+              ) : null}
             </dd>
           </dl>
         </div>
@@ -179,28 +186,15 @@ export default function SelectionReport() {
             </tr>
           ))}
         </ListTable>
-        <div className="mt-3">
+        <div className="mt-3 space-y-2">
           <RunTable view={view} unitSystem={sys} />
+          <SystemWarnings warnings={f.systemCurve?.warnings} />
         </div>
       </section>
 
       <SelectionFieldChecks checks={d.fieldChecks} unitSystem={sys} selectionId={d.id} />
 
-      <section className="panel break-inside-avoid text-sm">
-        <h2 className="font-semibold">Methods and assumptions</h2>
-        <ul className="mt-2 list-disc space-y-1 pl-5">
-          <li>Friction: Darcy-Weisbach with the Colebrook (1939) friction factor solved to machine precision (Clamond 2009); 64/Re below Re 2000; 2000–4000 flagged as transition.</li>
-          <li>Fittings: K = n·fT after Crane Technical Paper No. 410, 2009 edition (fT for clean commercial steel at full turbulence; butterfly valves by size, tee branch 1.69 or more where editions differ); entrance 0.5 and exit 1.0 (common practice).</li>
-          <li>Water properties: IAPWS-IF97 (density, saturation pressure) and IAPWS R12-08 (viscosity) at {fmtPressure(sys, 101325)}.</li>
-          <li>System band: least and most static lift × new and aged pipe roughness.</li>
-          <li>Pump curve: monotone cubic interpolation between published points (Fritsch–Carlson 1980), defined only between the first and last point; operating point by Brent's method.</li>
-          <li>Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).</li>
-          <li>Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5), judged at the design point and at each corner of the band (least and most lift × new and aged pipe), the lowest deciding; NPSHa at or below zero is a cavitation risk whatever the pump.</li>
-          <li>Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.</li>
-          <li>Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; efficiency by IE class after IEC 60034-30-1 (from memory); drive 97 % when a speed is set (common practice); energy from the electrical input.</li>
-          <li>Curve data frozen from {f.pump.library.name} revision {f.pump.library.revision} at {fmtUtc(f.frozenAt)}; later library changes do not alter this report.</li>
-        </ul>
-      </section>
+      <ReportMethods f={f} unitSystem={sys} />
 
       <section className="panel break-inside-avoid text-sm">
         <h2 className="font-semibold">Sign-off</h2>

@@ -24,7 +24,8 @@ import { LeaveQuestion } from "~/components/system-editor/LeaveQuestion";
 import { StoredInputReview } from "~/components/system-editor/StoredInputReview";
 import { ReadOnlyNotice } from "~/components/ReadOnlyNotice";
 import { CandidateEnergyPanel } from "~/components/CandidateEnergy";
-import { CandidateTable, RunTable, SizingCaution, WorkbenchChart } from "~/components/workbench";
+import { RunTable, SizingCaution, SystemWarnings, WorkbenchChart } from "~/components/workbench";
+import { CandidateTable } from "~/components/CandidateTable";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { PostButton } from "~/components/PostButton";
@@ -183,13 +184,7 @@ export default function SystemPage() {
                 <h2 className="font-semibold">System curve{view.candidates.length ? " and candidates" : ""}</h2>
                 {view.systemError ? <FormError error={`The system cannot be computed: ${view.systemError}`} /> : null}
                 <WorkbenchChart view={view} unitSystem={d.unitSystem} duty={draftInput.duty} title={`${d.name}: head against flow`} />
-                {view.evaluation?.warnings.length ? (
-                  <ul className="text-xs text-duty-ink">
-                    {view.evaluation.warnings.map((w, i) => (
-                      <li key={i}>▲ {w}</li>
-                    ))}
-                  </ul>
-                ) : null}
+                <SystemWarnings warnings={view.evaluation?.warnings} />
                 <RunTable view={view} unitSystem={d.unitSystem} />
                 <SizingCaution />
               </section>

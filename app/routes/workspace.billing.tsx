@@ -10,6 +10,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import {
   AlreadySubscribed,
   billingErrorMessage,
+  CheckoutBeingOpened,
   billingState,
   billingView,
   listInvoices,
@@ -104,7 +105,7 @@ export async function action({ request }: Route.ActionArgs) {
     }
   } catch (e) {
     if (e instanceof Response) throw e;
-    if (e instanceof AlreadySubscribed) return invalid({ _form: e.message }, 409);
+    if (e instanceof AlreadySubscribed || e instanceof CheckoutBeingOpened) return invalid({ _form: e.message }, 409);
     return invalid({ _form: billingErrorMessage(e) }, 502);
   }
 }

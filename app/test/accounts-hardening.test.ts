@@ -39,7 +39,7 @@ describe("an attacker who signs up with someone else's address", () => {
     // Even signed in (a session made by hand), neither the route nor the service hands out a token.
     const { startSession } = await import("~/lib/auth/session.server");
     const cookie = (await startSession(u.id, new Request(BASE))).split(";")[0];
-    const t = await call(accountRoute.action as never, { path: "/account", cookie, form: { intent: "create-token", name: "door", scope: "write" } });
+    const t = await call(accountRoute.action as never, { path: "/account", cookie, form: { intent: "create-token", name: "door", scope: "write", pageWorkspaceId: String(ms.workspaceId) } });
     expect(t.status).toBe(403);
     await expect(createApiToken({ userId: u.id, workspaceId: ms.workspaceId, name: "door", scope: "write" })).rejects.toMatchObject({ init: { status: 403 } });
     expect(await db().select().from(apiTokens).where(eq(apiTokens.userId, u.id))).toEqual([]);

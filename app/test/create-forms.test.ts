@@ -24,7 +24,7 @@ const cases = [
 ] as const;
 
 describe.each(cases)("new $what form", ({ what, path, action, table, form }) => {
-  const post = (who: TestMember, name: string) => call(action as never, { path, cookie: who.cookie, form: { ...form, name } });
+  const post = (who: TestMember, name: string) => call(action as never, { path, cookie: who.cookie, form: { ...form, name, pageWorkspaceId: String(who.workspaceId) } });
   const named = (name: string) => db().select({ id: table.id, workspaceId: table.workspaceId }).from(table).where(and(eq(table.name, name), eq(table.workspaceId, admin.workspaceId)));
 
   test("a contractor is refused and nothing is written", async () => {

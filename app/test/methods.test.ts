@@ -82,8 +82,8 @@ test("a POST to a page without an action: 405 with Allow: GET, HEAD from the roo
     const mod = modules[`../${r.file}`];
     return mod?.default && !mod.action;
   });
-  // Pages of app/routes.ts with no action (home, the API reference, field, a check, the tracer list, a selection, not found).
-  expect(pages.length).toBeGreaterThanOrEqual(7);
+  // Pages of app/routes.ts with no action (home, the API reference, field, a check, a selection, not found).
+  expect(pages.length).toBeGreaterThanOrEqual(6);
   const logged = vi.spyOn(console, "error");
   type Mw = (args: unknown, next: () => Promise<Response>) => Promise<Response | void>;
   for (const page of pages) {

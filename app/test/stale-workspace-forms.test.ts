@@ -18,32 +18,18 @@ import * as billingRoute from "~/routes/workspace.billing";
 import BillingPage from "~/routes/workspace.billing";
 import { kit, subscribe, useBillingStandIn, ws } from "~/lib/billing/test-kit";
 import { call, makeMember, type TestMember } from "./harness";
+import { alsoMemberOf, carries, formsOf, STALE, switchTo } from "./workspace-tabs";
 
 useBillingStandIn();
 
-const STALE = /^Nothing was changed: this page was for the workspace “(.+)”, and you are now working in “(.+)” \(switched in another tab or window\)\. Reload the page and try again\.$/;
-
 /** `m` (admin of their own workspace A) becomes admin of B too; A stays the current one. */
-async function alsoAdminOf(m: TestMember, workspaceId: number) {
-  await db().insert(memberships).values({ workspaceId, userId: m.userId, role: "admin" });
-}
-/** What "switch" in another tab does: the session's workspace is now `workspaceId`. */
-async function switchTo(m: TestMember, workspaceId: number) {
-  const r = await call(workspaceRoute.action as never, { path: "/workspace", cookie: m.cookie, form: { intent: "switch", workspaceId: String(workspaceId) } });
-  expect(r.status).toBe(200);
-}
+const alsoAdminOf = (m: TestMember, workspaceId: number) => alsoMemberOf(m, workspaceId, "admin");
 const wsName = async (id: number) => (await ws(id)).name;
 const pendingInvites = async (workspaceId: number) =>
   (await db().select().from(invitations).where(and(eq(invitations.workspaceId, workspaceId), isNull(invitations.revokedAt)))).length;
 const memberRow = async (id: number) => (await db().select().from(memberships).where(eq(memberships.id, id)))[0];
 const membershipId = async (workspaceId: number, userId: string) =>
   (await db().select().from(memberships).where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.userId, userId))))[0].id;
-
-/** Every form in the server's HTML, and whether it carries `pageWorkspaceId` = `id`. */
-function formsOf(html: string) {
-  return [...html.matchAll(/<form\b[^>]*>(.*?)<\/form>/gs)].map((f) => f[1]);
-}
-const carries = (form: string, id: number) => form.includes(`<input type="hidden" name="pageWorkspaceId" value="${id}"/>`);
 
 describe("the workspace page's forms", () => {
   test("A's forms posted after switching to B: 409 naming both, nothing changed in A or B; from B's own page they work", async () => {

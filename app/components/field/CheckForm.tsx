@@ -46,8 +46,8 @@ type Props = {
   selection: FormSelection;
   /** "userId/workspaceId" of the signed-in contractor: the queue sends only their checks. */
   owner: string;
-  /** The workspace the page is for: the form records there, a queued check is sent only there (`pageWorkspaceId`). */
-  workspace: { id: number; name: string };
+  /** The workspace the page showed: the check is recorded for it or refused (`PageWorkspaceField`). */
+  workspaceId: number;
   /** The reader's units: messages worked out on the phone are rendered in them. */
   units: UnitChoice;
   fields: CheckFields;
@@ -57,7 +57,7 @@ type Props = {
 };
 
 export function CheckForm(props: Props) {
-  const { selection, owner, workspace, fields, serverErrors, amends, onQueued } = props;
+  const { selection, owner, fields, serverErrors, amends, onQueued } = props;
   const navigation = useNavigation();
   const [clientErrors, setClientErrors] = useState<Errors>(undefined);
   const [saved, setSaved] = useState<string | null>(null);
@@ -108,7 +108,6 @@ export function CheckForm(props: Props) {
     const check: QueuedCheck = {
       clientId: deviceId(),
       owner,
-      workspace,
       selectionId: selection.id,
       selectionTitle: selection.title,
       basedOn: selection.fingerprint,
@@ -154,7 +153,7 @@ export function CheckForm(props: Props) {
       noValidate
       onSubmit={onSubmit}
     >
-      <PageWorkspaceField id={workspace.id} />
+      <PageWorkspaceField id={props.workspaceId} />
       <ErrorSummary errors={errors} labels={LABELS} />
       {saved ? (
         <p role="status" className="panel text-sm">

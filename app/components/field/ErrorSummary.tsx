@@ -3,6 +3,9 @@
 import { useEffect, useRef } from "react";
 import { inputId, type Errors } from "./inputs";
 
+/** Errors about the form as a whole, with no field to link to (the page's workspace is a hidden field). */
+const WHOLE_FORM = new Set(["_form", "pageWorkspaceId"]);
+
 export function ErrorSummary({ errors, labels }: { errors: Errors; labels: Record<string, string> }) {
   const box = useRef<HTMLDivElement>(null);
   const entries = Object.entries(errors ?? {});
@@ -19,7 +22,7 @@ export function ErrorSummary({ errors, labels }: { errors: Errors; labels: Recor
       <ul className="list-disc pl-5">
         {entries.map(([name, message]) => (
           <li key={name}>
-            {name === "_form" ? message : <a href={`#${inputId(name)}`}>{labels[name] ? `${labels[name]}: ${message}` : message}</a>}
+            {WHOLE_FORM.has(name) ? message : <a href={`#${inputId(name)}`}>{labels[name] ? `${labels[name]}: ${message}` : message}</a>}
           </li>
         ))}
       </ul>

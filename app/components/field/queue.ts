@@ -10,8 +10,6 @@ export type QueuedCheck = {
   clientId: string;
   /** The signed-in user and workspace that entered it ("userId/workspaceId"): only they send it. */
   owner: string;
-  /** The workspace it was entered in (its page's): sent as `pageWorkspaceId`, refused (kept here) while the session is in another. Absent on checks kept before it was: read from `owner`. */
-  workspace?: { id: number; name: string };
   selectionId: number;
   selectionTitle: string;
   /** The selection's fingerprint when the form was opened (a change is a conflict on sync). */

@@ -1,6 +1,11 @@
-// The phone's send queue (sync.ts) against the server's answers, with the IndexedDB queue kept in memory and
-// fetch answering as the route does (its answers are proved against MariaDB in
-// app/lib/fieldchecks/sync-guards.server.test.ts and taken-at.server.test.ts).
+// The phone's send queue (sync.ts) against the server's answers: what it sends (`checkBody`) and what it does
+// with each answer (`afterAnswer`), pure; then whole runs with the IndexedDB queue kept in memory and fetch
+// answering as the route does (its answers are proved against MariaDB in
+// app/lib/fieldchecks/sync-guards.server.test.ts, taken-at.server.test.ts and
+// app/test/stale-workspace-other-forms.test.ts). Each check is sent for the workspace it was entered in and
+// waits while the session works in another one (the server's 409 { staleWorkspace }).
+// Check values: our own rules (a check is recorded for the workspace whose page it was entered on, once per
+// device id and user; photo limits from photo-limits.ts).
 import { beforeEach, describe, expect, test, vi } from "vitest";
 import type { QueuedCheck } from "./queue";
 
@@ -10,7 +15,7 @@ vi.mock("./queue", () => ({
   deleteQueued: async (id: string) => void store.delete(id),
   allQueued: async () => [...store.values()],
 }));
-const { sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
+const { afterAnswer, checkBody, ownerWorkspaceId, sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
 
 type Sent = { url: string; body: FormData };
 let sent: Sent[] = [];
@@ -47,8 +52,8 @@ function queued(extra: Partial<QueuedCheck> = {}): QueuedCheck {
 const stored = (id = "phone-0000-aaaa") => store.get(id) as QueuedCheck | undefined;
 
 describe("the phone's send queue", () => {
-  test("a check carries the workspace it was queued in and the device's time it was taken", async () => {
-    store.set("phone-0000-aaaa", queued({ workspace: { id: 41, name: "Lowmoor Services" } }));
+  test("a check carries the workspace of its owner ('userId/workspaceId') and the device's time it was taken", async () => {
+    store.set("phone-0000-aaaa", queued());
     answers.push(json(201, { id: 90, duplicate: false }));
     expect(await sendWaiting("user-1/41")).toEqual([{ clientId: "phone-0000-aaaa", id: 90, duplicate: false }]);
     expect(sent[0].body.get("pageWorkspaceId")).toBe("41");
@@ -56,17 +61,10 @@ describe("the phone's send queue", () => {
     expect(store.size).toBe(0);
   });
 
-  test("a check queued before the workspace was kept with it sends the workspace of its owner ('userId/workspaceId')", async () => {
-    store.set("phone-0000-aaaa", queued());
-    answers.push(json(201, { id: 91, duplicate: false }));
-    await sendWaiting("user-1/41");
-    expect(sent[0].body.get("pageWorkspaceId")).toBe("41");
-  });
-
   test("the session has moved to another workspace (409): the check stays waiting, with the server's words, never 'refused'", async () => {
     store.set("phone-0000-aaaa", queued());
-    const words = "Not sent: this check was entered in “Lowmoor Services”, and you are now working in “Harrow Vell”. Switch back to “Lowmoor Services” to send it.";
-    answers.push(json(409, { otherWorkspace: words }));
+    const words = "Nothing was changed: this page was for the workspace “Lowmoor Services”, and you are now working in “Harrow Vell” (switched in another tab or window). Reload the page and try again.";
+    answers.push(json(409, { staleWorkspace: words }));
     expect(await sendWaiting("user-1/41")).toEqual([]);
     expect(stored()).toMatchObject({ status: "waiting", message: words });
     // Back in Lowmoor, the next run sends it and the words go with it.
@@ -114,5 +112,65 @@ describe("the phone's send queue", () => {
     expect(done[0].clientId).not.toBe("phone-0000-aaaa");
     expect(sent[1].body.get("clientId")).toBe(done[0].clientId);
     expect(store.size).toBe(0);
+  });
+});
+
+/** A kept check with the fields and owner given and no photos (the pure tests below). */
+const pure = (fields: Record<string, string>, owner = "u_abc123/42"): QueuedCheck => ({
+  clientId: "device-id-0001",
+  owner,
+  selectionId: 7,
+  selectionTitle: "Pump 1",
+  basedOn: "f".repeat(32),
+  fields,
+  photos: [],
+  createdAt: "2026-12-03T10:00:00.000Z",
+  local: { verdict: "pass", verdictText: "pass", flow: 0.01, head: 20 },
+  status: "waiting",
+});
+
+describe("what the queue sends", () => {
+  test("a check kept before the form carried the page's workspace goes with its owner's workspace", () => {
+    const body = checkBody(pure({ flow: "12" }));
+    expect(body.get("pageWorkspaceId")).toBe("42");
+    expect(body.get("clientId")).toBe("device-id-0001");
+    expect(body.get("basedOn")).toBe("f".repeat(32));
+  });
+
+  test("the owner's workspace is sent even when the fields say another (one value, the owner's)", () => {
+    const body = checkBody(pure({ flow: "12", pageWorkspaceId: "42" }, "u_abc123/42"));
+    expect(body.getAll("pageWorkspaceId")).toEqual(["42"]);
+    expect(ownerWorkspaceId("user/with/slashes/9")).toBe("9");
+  });
+
+  test("sent despite a conflict: no fingerprint", () => {
+    expect(checkBody(pure({}), { ignoreConflict: true }).get("basedOn")).toBeNull();
+  });
+});
+
+describe("what the queue does with the answer", () => {
+  test("409 staleWorkspace: the check waits (sent again later), with the server's words", () => {
+    const words = "Nothing was changed: this page was for the workspace “A”, and you are now working in “B” (switched in another tab or window). Reload the page and try again.";
+    expect(afterAnswer(409, false, { staleWorkspace: words })).toEqual({ kind: "later", message: words });
+  });
+
+  test("409 conflict: kept as a conflict; 400: refused; 201: recorded; 503: later", () => {
+    expect(afterAnswer(409, false, { conflict: "changed" })).toEqual({ kind: "keep", status: "conflict", message: "changed" });
+    expect(afterAnswer(400, false, { errors: { gradeId: "Choose a tolerance grade from the table." } })).toEqual({ kind: "keep", status: "refused", message: "Choose a tolerance grade from the table." });
+    expect(afterAnswer(201, true, { id: 5 })).toEqual({ kind: "recorded", id: 5, duplicate: false });
+    expect(afterAnswer(503, false, null)).toEqual({ kind: "later" });
+  });
+
+  test("409 with the chain's latest version, 409 client-id-taken, 413 and 422 for the photos: each kept for what the contractor can do", () => {
+    const latest = { id: 60, version: 2 };
+    expect(afterAnswer(409, false, { conflict: "amended meanwhile", latest })).toEqual({ kind: "keep", status: "conflict", message: "amended meanwhile", latest });
+    expect(afterAnswer(409, false, { code: "client-id-taken", detail: "That check id is already used by another check." })).toEqual({ kind: "new-id" });
+    expect(afterAnswer(413, false, null)).toMatchObject({ kind: "keep", status: "refused", refusedFor: "photos" });
+    expect(afterAnswer(422, false, { errors: { photos: "gauges.jpg is not a JPEG, PNG or WebP image." } })).toEqual({
+      kind: "keep",
+      status: "refused",
+      message: "gauges.jpg is not a JPEG, PNG or WebP image.",
+      refusedFor: "photos",
+    });
   });
 });

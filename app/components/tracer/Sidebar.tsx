@@ -3,7 +3,8 @@
 import type { Calibration, Quantity } from "~/lib/tracer";
 import { decimalOrNaN as num } from "~/lib/shared/decimal";
 import type { Unit } from "~/lib/import";
-import { QUANTITY_LABEL, UNITS, type Curve, type Panel, type TracerState } from "./model";
+import { QUANTITY_LABEL, UNITS, cleared, withNewCurve, type Curve, type Panel, type TracerState } from "./model";
+import type { CurveProblem } from "./curve-checks";
 
 // num: the forms' strict reader (shared/decimal.ts): blank, junk and an ambiguous 1,500 are NaN (not set yet).
 const show = (x: number) => (Number.isFinite(x) ? String(x) : "");
@@ -118,8 +119,9 @@ export function AxesEditor(props: { s: TracerState; cals: Map<number, Calibratio
   );
 }
 
-export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) => TracerState) => void }) {
+export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) => TracerState) => void; problems: CurveProblem[] }) {
   const { s, set } = props;
+  const problemOf = new Map(props.problems.map((p) => [p.curveId, p.message]));
   const setCurve = (id: number, f: (c: Curve) => Curve) => set((x) => ({ ...x, curves: x.curves.map((c) => (c.id === id ? f(c) : c)) }));
   const panelName = (id: number) => {
     const p = s.panels.find((q) => q.id === id);
@@ -137,7 +139,7 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
                 <strong>{c.kind === "contour" ? `Contour ${c.level || "?"} %` : `Curve ${c.id}`}</strong>
               </label>
               <span className="text-slate-500">{panelName(c.panelId)} · {c.points.length} points</span>
-              <button type="button" className="text-slate-500 underline" onClick={() => setCurve(c.id, (x) => ({ ...x, points: [] }))}>clear</button>
+              <button type="button" className="text-slate-500 underline" onClick={() => setCurve(c.id, cleared)}>clear</button>
               {s.curves.length > 1 ? (
                 <button type="button" className="text-slate-500 underline" onClick={() => set((x) => ({ ...x, curves: x.curves.filter((y) => y.id !== c.id), activeCurve: x.curves.find((y) => y.id !== c.id)!.id }))}>
                   remove
@@ -156,11 +158,22 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
                 </label>
               </div>
             ) : (
-              <label className="flex items-center gap-1">
-                Efficiency of this contour (%)
-                <input className="field w-20" inputMode="decimal" data-testid={`level-${c.id}`} defaultValue={show(c.level || NaN)} onChange={(e) => setCurve(c.id, (x) => ({ ...x, level: num(e.target.value) }))} />
-              </label>
+              <div className="flex flex-wrap items-center gap-2">
+                <label className="flex items-center gap-1">
+                  Efficiency of this contour (%)
+                  <input className="field w-20" inputMode="decimal" data-testid={`level-${c.id}`} defaultValue={show(c.level || NaN)} onChange={(e) => setCurve(c.id, (x) => ({ ...x, level: num(e.target.value) }))} />
+                </label>
+                <label className="flex items-center gap-1" title="An island: the last point joins the first. Leave it open for a line that leaves the chart, or one arm of a contour.">
+                  <input type="checkbox" data-testid={`closed-${c.id}`} checked={c.closed === true} onChange={(e) => setCurve(c.id, (x) => ({ ...x, closed: e.target.checked }))} />
+                  Closed loop
+                </label>
+              </div>
             )}
+            {problemOf.has(c.id) ? (
+              <p className="text-xs text-fail" data-testid={`curve-problem-${c.id}`}>
+                {problemOf.get(c.id)}
+              </p>
+            ) : null}
           </li>
         ))}
       </ul>
@@ -171,20 +184,17 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
             type="button"
             className="btn-quiet"
             data-testid={`add-${kind}`}
-            onClick={() => set((x) => {
-              const id = Math.max(0, ...x.curves.map((c) => c.id)) + 1;
-              const prev = x.curves.find((c) => c.id === x.activeCurve);
-              const curve: Curve = { id, panelId: x.activePanel, kind, impellerMm: kind === "curve" ? prev?.impellerMm ?? 0 : 0, speedRpm: prev?.speedRpm ?? 2900, level: 0, points: [] };
-              return { ...x, curves: [...x.curves, curve], activeCurve: id };
-            })}
+            onClick={() => set((x) => withNewCurve(x, kind))}
           >
             {kind === "curve" ? "Add a curve on the active panel" : "Add an iso-efficiency contour"}
           </button>
         ))}
       </div>
       <p className="text-xs text-slate-500">
-        Curves of one impeller on several panels (head, efficiency, power, NPSHr) share its impeller Ø and speed. Efficiency is read from the
-        contours where they cross a head curve when no efficiency curve is traced for that impeller.
+        Curves of one impeller on several panels (head, efficiency, power, NPSHr) share its impeller Ø and speed; each curve is read in its
+        own panel’s unit. Efficiency is read from the contours where they cross a head curve when no efficiency curve is traced for that
+        impeller. A contour taken with “Follow a colour” is a closed loop; one clicked point by point is open unless “Closed loop” is ticked.
+        With no impeller Ø on any curve the CSV has no impeller column.
       </p>
     </section>
   );

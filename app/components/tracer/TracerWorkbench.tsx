@@ -7,7 +7,10 @@ import { colourAt, colourMask, engineSmooth, toPixel, traceIsland, traceMask, ty
 import { loadImage, loadPdfPage, type Picture } from "./load-picture";
 import { PictureCanvas, type Selection, type Tool } from "./PictureCanvas";
 import { AxesEditor, CurvesEditor } from "./Sidebar";
-import { calibrations, csvOf, initialState, keptPoints, type TracerState } from "./model";
+import { PeakNotice } from "./PeakNotice";
+import { curveProblems, importBlock } from "./curve-checks";
+import { calibrations, csvOf, initialState, keptPoints, takeIsland, unreadPeaks, type TracerState } from "./model";
+import { peakNote } from "~/lib/tracer/peak";
 
 const TOOLS: [Tool, string][] = [
   ["xref", "Flow axis point"],
@@ -50,6 +53,11 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
   const mask = useMemo(() => (picture && colour && tool === "colour" ? colourMask(picture, colour.rgb, tolerance, box ?? whole!) : null), [picture, colour, tolerance, box, tool]); // eslint-disable-line react-hooks/exhaustive-deps
   const csv = useMemo(() => csvOf(s, cals), [s, cals]);
   const rows = csv.trim().split("\n").length - 1;
+  // Curves the CSV would lose or the importer refuse (curve-checks.ts): import and export wait for them.
+  const problems = useMemo(() => curveProblems(s), [s]);
+  const blockedWhy = useMemo(() => importBlock(s), [s]);
+  const peaks = useMemo(() => unreadPeaks(s, cals), [s, cals]);
+  const blocked = rows === 0 || blockedWhy !== null;
 
   const overlay = useMemo(() => {
     const refs = [
@@ -62,7 +70,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
       if (cal && typeof cal !== "string") {
         smooth = c.kind === "contour" ? c.points : engineSmooth(keptPoints(c, cals, s.pointsPerCurve), 120).map((d) => toPixel(cal, d.x, d.y)).filter((p): p is Px => p !== null);
       }
-      return { id: c.id, points: c.points, smooth, active: c.id === s.activeCurve, closed: c.kind === "contour" };
+      return { id: c.id, points: c.points, smooth, active: c.id === s.activeCurve, closed: c.kind === "contour" && c.closed === true };
     });
     return { refs, curves, mask, box };
   }, [s, cals, mask, box]);
@@ -89,7 +97,9 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
     }
     const b = box ?? whole!;
     const pts = active.kind === "contour" ? traceIsland(mask, picture, b, 160) : traceMask(mask, picture, cal, b, { seed: colour.seed, maxJump: 12 * renderScale });
-    setPoints(active.id, () => pts);
+    // The island tracer's outline is a closed loop; a line clicked by hand stays open unless the user closes it.
+    if (active.kind === "contour") set((x) => ({ ...x, curves: x.curves.map((c) => (c.id === active.id ? takeIsland(c, pts) : c)) }));
+    else setPoints(active.id, () => pts);
     setMessage(pts.length ? `${pts.length} points taken; move or delete any that missed, or trace again.` : "No pixels of that colour in the box: raise the tolerance or pick again.");
   };
 
@@ -162,7 +172,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
         </div>
         <div className="space-y-4">
           <AxesEditor s={s} cals={cals} set={set} />
-          <CurvesEditor s={s} set={set} />
+          <CurvesEditor s={s} set={set} problems={problems} />
         </div>
       </div>
       <section className="panel space-y-2 text-sm">
@@ -177,16 +187,23 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
             <input type="number" min={3} max={60} className="field w-20" value={s.pointsPerCurve} onChange={(e) => set((x) => ({ ...x, pointsPerCurve: Math.min(60, Math.max(3, Number(e.target.value) || 15)) }))} />
           </label>
         </div>
+        <PeakNotice peaks={peaks} flowUnit={s.flowUnit} onTake={(id, taken) => set((x) => ({ ...x, curves: x.curves.map((c) => (c.id === id ? { ...c, peakAtMidpoint: taken } : c)) }))} />
         <textarea readOnly className="field h-32 w-full font-mono text-xs" value={csv} aria-label="Traced points as CSV" data-testid="traced-csv" />
+        {blockedWhy ? (
+          <p className="text-sm text-fail" role="alert" data-testid="import-blocked">
+            {blockedWhy}
+          </p>
+        ) : null}
         <div className="flex flex-wrap gap-2">
-          <button type="button" className="btn-quiet" disabled={rows === 0} onClick={download}>
+          <button type="button" className="btn-quiet" disabled={blocked} onClick={download}>
             Export the traced points (CSV)
           </button>
           <Form method="post">
             <input type="hidden" name="intent" value="import" />
             <input type="hidden" name="csv" value={csv} />
+            <input type="hidden" name="note" value={peakNote(peaks, s.flowUnit)} />
             {isPdf ? <input type="hidden" name="page" value={page} /> : null}
-            <button type="submit" className="btn" disabled={rows === 0} data-testid="trace-import">
+            <button type="submit" className="btn" disabled={blocked} data-testid="trace-import">
               Check and import ({rows} rows)
             </button>
           </Form>

@@ -1,9 +1,10 @@
 // The tracer page's working state and what is derived from it (calibrations, data points, CSV).
 // Pure TypeScript: the maths lives in app/lib/tracer; this only wires the page's choices to it.
 import {
-  axisValue, calibrate, crossings, efficiencyFromContours, resample, toAxis, toData, tracedCsv,
-  type AxisRef, type AxisScale, type Calibration, type Contour, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
+  axisValue, calibrate, contourGaps, crossings, efficiencyFromContours, impellerGiven, resample, toAxis, toData, tracedCsv,
+  type AxisRef, type AxisScale, type Calibration, type Contour, type Crossing, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
 } from "~/lib/tracer";
+import type { UnreadPeak } from "~/lib/tracer/peak";
 import type { Unit } from "~/lib/import";
 
 export type Panel = { id: number; quantity: Quantity; unit: Unit; scale: AxisScale; refs: AxisRef[] };
@@ -12,11 +13,20 @@ export type Curve = {
   panelId: number;
   /** "curve": a head/efficiency/power/NPSHr curve of one impeller; "contour": an iso-efficiency line (head panel). */
   kind: "curve" | "contour";
+  /** Impeller Ø, mm; blank is NaN (pages before this wrote 0, read as blank too). */
   impellerMm: number;
   speedRpm: number;
   /** Efficiency of a contour, %. */
   level: number;
   points: Px[];
+  /**
+   * A contour that is a closed loop (its last point joins its first): the island tracer's outline, or
+   * the user's choice in the sidebar. Open when absent: a line clicked by hand may be one arm of a
+   * contour that leaves the chart, and a chord between its ends would cross curves it never meets.
+   */
+  closed?: boolean;
+  /** A head curve whose efficiency comes from contours: the user took the middle of the innermost contour it crosses as its BEP (peak.ts). */
+  peakAtMidpoint?: boolean;
 };
 export type TracerState = {
   model: string;
@@ -50,7 +60,7 @@ export function initialState(units: { flow: string; head: string } = { flow: "m3
     flowScale: "linear",
     xRefs: [],
     panels: [{ id: 1, quantity: "head", unit: tracerUnit(UNITS.head, units.head, "m"), scale: "linear", refs: [] }],
-    curves: [{ id: 1, panelId: 1, kind: "curve", impellerMm: 0, speedRpm: 2900, level: 0, points: [] }],
+    curves: [{ id: 1, panelId: 1, kind: "curve", impellerMm: NaN, speedRpm: 2900, level: 0, points: [] }],
     activePanel: 1,
     activeCurve: 1,
     pointsPerCurve: 15,
@@ -80,50 +90,116 @@ export function dataPoints(c: Curve, cals: Map<number, Calibration | string>): X
   });
 }
 
-/** Crossings of one head curve with the head panel's contours → efficiency (%) along it. */
-export function contourEfficiency(s: TracerState, head: Curve, cals: Map<number, Calibration | string>): XY[] {
+/**
+ * The page with a new curve on the active panel, made active: a blank impeller Ø (copying the last one
+ * made a second curve of the same key, which the CSV dropped without a word) and the active curve's
+ * speed; a contour open.
+ */
+export function withNewCurve(s: TracerState, kind: Curve["kind"]): TracerState {
+  const id = Math.max(0, ...s.curves.map((c) => c.id)) + 1;
+  const prev = s.curves.find((c) => c.id === s.activeCurve);
+  const curve: Curve = { id, panelId: s.activePanel, kind, impellerMm: NaN, speedRpm: prev?.speedRpm ?? 2900, level: 0, points: [], ...(kind === "contour" ? { closed: false } : {}) };
+  return { ...s, curves: [...s.curves, curve], activeCurve: id };
+}
+
+/** The island tracer's outline for a contour: a closed loop by construction. */
+export const takeIsland = (c: Curve, points: Px[]): Curve => ({ ...c, points, closed: true });
+/** A curve with its points cleared: a contour open again (lines clicked by hand are open until closed). */
+export const cleared = (c: Curve): Curve => (c.kind === "contour" ? { ...c, points: [], closed: false } : { ...c, points: [] });
+
+/** What the head panel's contours say along one head curve: crossings, efficiency and the spans they leave unread (flows in the axis unit). */
+export type ContourReading = { /** x in the flow axis's unit */ crossings: Crossing[]; efficiency: XY[]; gaps: { from: number; to: number; level: number; innermost: boolean; midpoint: number }[]; levels: number[] };
+
+export function contourReading(s: TracerState, head: Curve, cals: Map<number, Calibration | string>): ContourReading {
+  const none: ContourReading = { crossings: [], efficiency: [], gaps: [], levels: [] };
   const cal = cals.get(head.panelId);
-  if (!cal || typeof cal === "string") return [];
+  if (!cal || typeof cal === "string") return none;
   const ax = (p: Px) => {
     const a = toAxis(cal, p);
     return { x: a.X, y: a.Y };
   };
   const contours: Contour[] = s.curves
     .filter((c) => c.kind === "contour" && c.panelId === head.panelId && c.points.length >= 2 && c.level > 0)
-    .map((c) => ({ level: c.level, closed: c.points.length > 2, points: c.points.map(ax) }));
-  if (!contours.length) return [];
+    .map((c) => ({ level: c.level, closed: c.closed === true, points: c.points.map(ax) }));
+  if (!contours.length) return none;
+  const back = (x: number) => axisValue.back(s.flowScale, x);
   const xs = crossings(head.points.map(ax).sort((a, b) => a.x - b.x), contours);
-  if (xs.length < 2) return xs.map((x) => ({ x: axisValue.back(s.flowScale, x.x), y: x.level }));
-  // Read between the crossings as the engine would, at the head curve's own traced flows.
-  return head.points
+  const levels = [...new Set(contours.map((c) => c.level))].sort((a, b) => a - b);
+  const gaps = contourGaps(xs).map((g) => ({ from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, midpoint: back((g.from + g.to) / 2) }));
+  const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
+  if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
+  // Read between the crossings as the engine would, at the head curve's own traced flows; nothing inside a gap.
+  const efficiency = head.points
     .map(ax)
-    .map((p) => ({ x: axisValue.back(s.flowScale, p.x), y: efficiencyFromContours(xs, p.x) }))
+    .map((p) => ({ x: back(p.x), y: efficiencyFromContours(xs, p.x) }))
     .filter((p): p is XY => p.y != null);
+  return { crossings: crossingsOut, efficiency, gaps, levels };
 }
 
-/** The traced sets (one per impeller and speed) ready for our CSV. */
-export function tracedSets(s: TracerState, cals: Map<number, Calibration | string>): TracedSet[] {
+/** Crossings of one head curve with the head panel's contours → efficiency (%) along it. */
+export function contourEfficiency(s: TracerState, head: Curve, cals: Map<number, Calibration | string>): XY[] {
+  return contourReading(s, head, cals).efficiency;
+}
+
+/** A curve's key in the CSV: speed and impeller Ø (blank when not given). */
+export const keyOf = (c: Curve) => `${c.speedRpm}|${impellerGiven(c.impellerMm) ? c.impellerMm : ""}`;
+
+/** The head curves of the page, and each curve's quantity and unit (its panel's). */
+function panelsOf(s: TracerState) {
   const panelOf = new Map(s.panels.map((p) => [p.id, p]));
-  const groups = new Map<string, TracedSet>();
-  const heads = s.curves.filter((c) => c.kind === "curve" && panelOf.get(c.panelId)?.quantity === "head");
+  const quantityOf = (c: Curve) => panelOf.get(c.panelId)?.quantity;
+  const unitOf = (c: Curve) => panelOf.get(c.panelId)?.unit;
+  const heads = s.curves.filter((c) => c.kind === "curve" && quantityOf(c) === "head");
+  return { heads, quantityOf, unitOf };
+}
+
+/** The innermost contour spans of the head curves whose efficiency comes from contours (one per span). */
+export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | string>): UnreadPeak[] {
+  const out: UnreadPeak[] = [];
+  const { heads, quantityOf } = panelsOf(s);
+  const seen = new Set<string>();
   for (const h of heads) {
-    const key = `${h.speedRpm}|${h.impellerMm}`;
-    if (groups.has(key)) continue;
-    const set: TracedSet = { model: s.model.trim() || "Traced model", speedRpm: h.speedRpm, impellerMm: h.impellerMm, curves: { head: dataPoints(h, cals) } };
+    if (seen.has(keyOf(h))) continue;
+    seen.add(keyOf(h));
+    if (s.curves.some((c) => c.kind === "curve" && quantityOf(c) === "efficiency" && keyOf(c) === keyOf(h))) continue;
+    const r = contourReading(s, h, cals);
+    if (r.crossings.length < 2) continue;
+    for (const g of r.gaps.filter((x) => x.innermost)) {
+      out.push({ curveId: h.id, curve: `Curve ${h.id}`, impellerMm: h.impellerMm, speedRpm: h.speedRpm, level: g.level, from: g.from, to: g.to, next: r.levels.find((L) => L > g.level) ?? null, midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
+    }
+  }
+  return out;
+}
+
+/** The traced sets (one per impeller and speed) ready for our CSV; each curve in its own panel's unit. */
+export function tracedSets(s: TracerState, cals: Map<number, Calibration | string>): TracedSet[] {
+  const groups = new Map<string, TracedSet>();
+  const { heads, quantityOf, unitOf } = panelsOf(s);
+  for (const h of heads) {
+    const key = keyOf(h);
+    if (groups.has(key)) continue; // a second head curve of one key: curve-checks.ts blocks the import
+    const set: TracedSet = { model: s.model.trim() || "Traced model", speedRpm: h.speedRpm, impellerMm: h.impellerMm, curves: { head: dataPoints(h, cals) }, units: { head: unitOf(h) } };
     for (const c of s.curves) {
-      const q = panelOf.get(c.panelId)?.quantity;
-      if (c.kind !== "curve" || c === h || !q || q === "head" || c.speedRpm !== h.speedRpm || c.impellerMm !== h.impellerMm) continue;
+      const q = quantityOf(c);
+      if (c.kind !== "curve" || c === h || !q || q === "head" || keyOf(c) !== key) continue;
       set.curves[q] = dataPoints(c, cals);
+      set.units![q] = unitOf(c);
     }
     if (!set.curves.efficiency) {
-      const eff = contourEfficiency(s, h, cals);
-      if (eff.length >= 2) set.curves.efficiency = eff;
+      const r = contourReading(s, h, cals);
+      if (r.efficiency.length >= 2) {
+        set.curves.efficiency = r.efficiency;
+        set.units!.efficiency = "%";
+        set.efficiencyGaps = r.gaps.map((g) => ({ from: g.from, to: g.to }));
+        if (h.peakAtMidpoint) set.peaks = r.gaps.filter((g) => g.innermost).map((g) => ({ x: g.midpoint, y: g.level }));
+      }
     }
     groups.set(key, set);
   }
   return [...groups.values()];
 }
 
+/** The CSV's units where a set does not carry its own: the flow axis's, and each quantity's first panel's. */
 export function traceUnits(s: TracerState): TraceUnits {
   const unitOf = (q: Quantity, fallback: Unit) => s.panels.find((p) => p.quantity === q)?.unit ?? fallback;
   return { flow: s.flowUnit, head: unitOf("head", "m"), efficiency: "%", power: unitOf("power", "kW"), npshr: unitOf("npshr", "m") };

@@ -11,7 +11,7 @@ import { forbidden, unauthorized } from "../shared/problem.server";
 import { cachedToken, rememberToken } from "./token-cache.server";
 import { SI_UNITS, type UnitChoice } from "../shared/units";
 import { oncePerRequest, readsShared } from "../shared/request-scope.server";
-import { invalid, PageWorkspaceId, readForm } from "../shared/forms.server";
+import { invalid, PageWorkspaceId, readForm, type FieldErrors } from "../shared/forms.server";
 import { viewerOf, type Viewer } from "./viewer.server";
 
 export type WorkspaceInfo = { id: number; name: string; slug: string; plan: "free" | "network" };
@@ -104,20 +104,25 @@ export async function requireMember(request: Request, permission?: Permission): 
 
 /**
  * The action of a workspace's "new …" form: a member with `permission` (else 401/403 as `requireMember`), the
- * form read with `schema`, then its field errors (400) or `create` and a redirect to `page(id)`; a post without
- * JavaScript lands there too.
+ * form read with `schema` and the page's workspace (`pageWorkspaceId`), then its field errors (400), the page's
+ * workspace refused when the session has moved to another since (409, `staleWorkspacePage`: nothing created),
+ * or `create` and a redirect to `page(id)`; a post without JavaScript lands there too.
  */
-export async function createAsMember<S extends v.GenericSchema>(
+export async function createAsMember<E extends v.ObjectEntries>(
   request: Request,
   permission: Permission,
-  schema: S,
-  create: (viewer: Viewer, value: v.InferOutput<S>) => Promise<number>,
+  schema: v.ObjectSchema<E, undefined>,
+  create: (viewer: Viewer, value: v.InferOutput<v.ObjectSchema<E, undefined>>) => Promise<number>,
   page: (id: number) => string,
 ) {
   const m = await requireMember(request, permission);
-  const r = await readForm(request, schema);
+  const r = await readForm(request, v.object({ ...schema.entries, pageWorkspaceId: PageWorkspaceId }));
   if (!r.ok) return invalid(r.errors);
-  throw redirect(page(await create(viewerOf(m), r.value)));
+  // The generic object's output loses its keys' types here: the page's id is the number PageWorkspaceId makes, the rest `schema`'s.
+  const { pageWorkspaceId, ...value } = r.value as { pageWorkspaceId: number };
+  const stale = staleWorkspacePage(m, pageWorkspaceId);
+  if (stale) return invalid({ _form: stale }, 409);
+  throw redirect(page(await create(viewerOf(m), value as v.InferOutput<v.ObjectSchema<E, undefined>>)));
 }
 
 /**
@@ -135,35 +140,15 @@ export function staleWorkspacePage(m: Member, pageWorkspaceId: number): string |
 }
 
 /**
- * The page's workspace as a form sent it (field `pageWorkspaceId`, read by `PageWorkspaceId`) against the session's:
- * null when they agree; 400 when the form has none (a page from before the field); 409 in `words` (by default
- * `staleWorkspacePage`'s) when the session has moved to another workspace since. For forms read without `readForm`
- * (multipart, with photos).
+ * For an action that reads its body as FormData (the field-check form and the phone's queue): the page's
+ * workspace as posted (`raw`, the form's `pageWorkspaceId`) refused — 400 when missing (a page from before the
+ * field), 409 when the session has moved to another workspace (`staleWorkspacePage`) — or null to go on.
  */
-export function pageWorkspaceRefusal(
-  m: Member,
-  value: FormDataEntryValue | null,
-  words: (m: Member, pageWorkspaceId: number) => string | null = staleWorkspacePage,
-): { status: 400 | 409; message: string } | null {
-  const read = v.safeParse(PageWorkspaceId, typeof value === "string" ? value : undefined);
-  if (!read.success) return { status: 400, message: read.issues[0].message };
-  const stale = words(m, read.output);
-  return stale ? { status: 409, message: stale } : null;
-}
-
-/**
- * A check kept on a phone while the session was in one workspace and sent after it moved to another: the words of
- * the 409, naming both (the phone keeps the check and sends it once the session is back); null when they are the same.
- */
-export function staleQueuedWorkspace(m: Member, queuedIn: number): string | null {
-  if (queuedIn === m.workspace.id) return null;
-  const was = m.workspaces.find((w) => w.id === queuedIn);
-  if (!was)
-    return `Not sent: this check was entered in a workspace you are no longer in, and you are now working in “${m.workspace.name}”. It cannot be recorded from here; it stays on this phone until you delete it.`;
-  return (
-    `Not sent: this check was entered in “${was.name}”, and you are now working in “${m.workspace.name}” (switched in another tab or window). ` +
-    `Switch back to “${was.name}” to send it; it stays on this phone until then.`
-  );
+export function pageWorkspaceRefusal(m: Member, raw: FormDataEntryValue | null): { status: 400 | 409; errors: FieldErrors } | null {
+  const r = v.safeParse(PageWorkspaceId, typeof raw === "string" ? raw : undefined);
+  if (!r.success) return { status: 400, errors: { pageWorkspaceId: r.issues[0].message } };
+  const stale = staleWorkspacePage(m, r.output);
+  return stale ? { status: 409, errors: { _form: stale } } : null;
 }
 
 export type ApiCaller = {

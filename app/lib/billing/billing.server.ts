@@ -15,6 +15,7 @@ import { workspaces } from "@db/schema";
 import type { WorkspaceInfo } from "../auth/guards.server";
 import { settings } from "../shared/env.server";
 import { OPENS_PLAN, isLive } from "./subscription-states";
+import { claimCheckout, releaseCheckout } from "./checkout-claim.server";
 
 export type Plan = WorkspaceInfo["plan"];
 
@@ -139,9 +140,10 @@ async function expireOpenCheckouts(customer: string): Promise<void> {
  * A Checkout Session in subscription mode for the Network plan; returns the hosted page's URL. Refused while
  * our row shows a live subscription, or Stripe lists one for the customer (our row may lag: a webhook not
  * landed yet, a subscription made elsewhere). The customer's earlier open sessions are expired first, so two
- * checkouts opened before paying cannot make two subscriptions. Two admins pressing Upgrade in the same
- * moment can still each get a session (neither sees the other's); Stripe then has two open, and paying both
- * would make two subscriptions — the webhook keeps the first and records the second (webhook.server.ts).
+ * checkouts opened one after the other before paying cannot make two subscriptions. Two admins pressing
+ * Upgrade in the same moment do not each get one: the opening is claimed on the workspace's row first
+ * (`claimCheckout`), so the second is refused with `CheckoutBeingOpened` until the first's session exists or
+ * its call failed (the claim is cleared either way).
  */
 export async function startCheckout(ws: { id: number; name: string }, email: string, appUrl: string): Promise<string> {
   const state = await billingState(ws.id);
@@ -152,22 +154,27 @@ export async function startCheckout(ws: { id: number; name: string }, email: str
         : `This workspace's subscription at Stripe is ${state.status}. ${PORTAL_HINT}`,
     );
   }
-  const customer = await ensureCustomer(ws, email);
-  await expireOpenCheckouts(customer);
-  const live = await liveSubscriptionOf(customer);
-  if (live) throw new AlreadySubscribed(`This workspace already has a subscription at Stripe (${live.id}, ${live.status}). ${PORTAL_HINT}`);
-  const session = await stripe().checkout.sessions.create({
-    mode: "subscription",
-    customer,
-    line_items: [{ price: stripeConfig().priceId, quantity: 1 }],
-    client_reference_id: String(ws.id),
-    metadata: { workspace_id: String(ws.id) },
-    subscription_data: { metadata: { workspace_id: String(ws.id) } },
-    success_url: `${appUrl}/workspace/billing?checkout=done&session_id={CHECKOUT_SESSION_ID}`,
-    cancel_url: `${appUrl}/workspace/billing?checkout=canceled`,
-  });
-  if (!session.url) throw new Error("Stripe returned a checkout session without a URL");
-  return session.url;
+  const mark = await claimCheckout(ws.id);
+  try {
+    const customer = await ensureCustomer(ws, email);
+    await expireOpenCheckouts(customer);
+    const live = await liveSubscriptionOf(customer);
+    if (live) throw new AlreadySubscribed(`This workspace already has a subscription at Stripe (${live.id}, ${live.status}). ${PORTAL_HINT}`);
+    const session = await stripe().checkout.sessions.create({
+      mode: "subscription",
+      customer,
+      line_items: [{ price: stripeConfig().priceId, quantity: 1 }],
+      client_reference_id: String(ws.id),
+      metadata: { workspace_id: String(ws.id) },
+      subscription_data: { metadata: { workspace_id: String(ws.id) } },
+      success_url: `${appUrl}/workspace/billing?checkout=done&session_id={CHECKOUT_SESSION_ID}`,
+      cancel_url: `${appUrl}/workspace/billing?checkout=canceled`,
+    });
+    if (!session.url) throw new Error("Stripe returned a checkout session without a URL");
+    return session.url;
+  } finally {
+    await releaseCheckout(ws.id, mark);
+  }
 }
 
 /** Asks Stripe to end (or keep) the subscription at the close of the period. The webhook records the answer. */

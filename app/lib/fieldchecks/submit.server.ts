@@ -17,13 +17,6 @@ export type SubmitOutcome =
   | { ok: false; status: 400 | 422; errors: Record<string, string>; fields: CheckFields }
   | { ok: false; status: 409; conflict: string; latest: { id: number; version: number } | null; fields: CheckFields };
 
-/** The form's text fields as typed (the page's form shows them again when the check is not recorded). */
-export function typedFields(form: FormData): CheckFields {
-  const raw: CheckFields = {};
-  for (const [key, value] of form.entries()) if (typeof value === "string" && key !== "photos") raw[key] = value;
-  return raw;
-}
-
 /** Validates the form, reads the photos and records the check (once per device id). */
 export async function submitCheckForm(viewer: Viewer, selectionId: number, form: FormData): Promise<SubmitOutcome> {
   const raw: Record<string, string> = {};

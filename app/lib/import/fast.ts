@@ -13,6 +13,7 @@ import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
 import { efficiencyPlausible, risesTooMuch } from "./point-rules";
+import { textCell } from "./text-cells";
 
 const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
 
@@ -188,7 +189,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     if (colOf[7] >= 0) {
       const a = cellStart[colOf[7]];
       const e = cellEnd[colOf[7]];
-      if (!sameText(body, a, e, lastA, lastE)) lastRawTrim = body.slice(a, e).trim();
+      if (!sameText(body, a, e, lastA, lastE)) lastRawTrim = textCell(body.slice(a, e));
       lastA = a;
       lastE = e;
       model = lastRawTrim;
@@ -217,7 +218,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       if (ci < 0) continue;
       const f = t === 8 ? "type" : t === 9 ? "size" : "notes";
       if (cur[f] === undefined) {
-        const v = body.slice(cellStart[ci], cellEnd[ci]).trim();
+        const v = textCell(body.slice(cellStart[ci], cellEnd[ci]));
         if (v) cur[f] = v;
       }
     }

@@ -117,6 +117,7 @@ export {
 export { powerKindNote, powerKindMessage } from "./power-kinds";
 export { isUnitCell, unitsRowOf, type UnitsRow } from "./units-row";
 export { parseNumber } from "./numbers";
+export { undefused, textCell } from "./text-cells";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";

@@ -30,6 +30,7 @@ import { parseNumber, underflows } from "./numbers";
 import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
+import { textCell } from "./text-cells";
 import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -166,7 +167,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     };
 
     const modelCell = lr.cells.model;
-    const model = modelCell?.raw.trim() ?? "";
+    // Text cells as written: our CSV writer's formula defusing undone (text-cells.ts); a default typed on the mapping page is kept as typed.
+    const model = modelCell ? (modelCell.column === "(default)" ? modelCell.raw.trim() : textCell(modelCell.raw)) : "";
     if (modelCell && !model) bad(modelCell.column, "missing-model", "model is empty");
     // A blank cell in a mapped speed or diameter column would start a new curve without that value
     // (splitting the curve): it is an error charged to the curve above, with the two ways out.
@@ -239,7 +241,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     b.lastLine = lr.line;
     b.set.sourceRows.push(lr.line);
     for (const f of ["type", "size", "notes"] as const) {
-      const t = lr.cells[f]?.raw.trim();
+      const cell = lr.cells[f];
+      const t = cell ? textCell(cell.raw) : undefined;
       if (t && b.set[f] === undefined) b.set[f] = t;
     }
     const runOut =

@@ -2,27 +2,38 @@
 import type { FrozenSelection } from "./selections.server";
 import { toCsv } from "../shared/csv";
 import { cycleWarnings, missingSteps, missingStepsText, stepVerdict, stepWarnings } from "./energy";
+import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
+import { cautionFigures } from "./selection-cautions";
 
 const row = (xs: unknown[]) => xs;
 
 /**
  * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, NPSH at the design
  * point and the band's corners, the duty cycle step by step, the life-cycle cost year by year, and figures (the cycle's totals and life-cycle cost among them).
- * SI units named in every header; money in the workspace's currency, named in the unit column.
+ * SI units named in every header; money in the workspace's currency, named in the unit column. Every caution the report
+ * shows is a figure too (selection-cautions.ts), and a traced curve's source and caution a comment line under the guidance.
+ * Pumps in parallel or series: a comment line says so, the curve, band and cycle power columns are named as the duty pumps'
+ * together (`shaft_power_all_duty_pumps_w`), and the figures get a basis column (per pump, or the duty pumps together) with
+ * one pump's shaft power and electrical input beside the totals (power-basis.ts). A single pump's layout is as it was.
  */
 export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
   const lines: unknown[][] = [];
   lines.push(row(["# Dutymark selection export", `DM-${String(id).padStart(5, "0")}`, title]));
   lines.push(row(["# Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer."]));
+  const traced = f.pump.library.traced;
+  if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
+  const basis = pumpsBasis(f.adjustment);
+  if (basis) lines.push(row([`# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
   lines.push([]);
+  const w = (name: string) => powerColumn(basis, name);
   lines.push(row(["section", "flow_m3s", "head_m", "head_low_m", "head_high_m", "pressure_pa", "npsha_m"]));
   const sc = f.systemCurve;
   if (sc) sc.flows.forEach((q, i) => lines.push(row(["system_curve", q, sc.design[i], sc.low[i], sc.high[i], sc.pressure[i], sc.npsha[i]?.y])));
   lines.push([]);
-  lines.push(row(["section", "flow_m3s", "head_m", "efficiency", "shaft_power_w", "npshr_m"]));
+  lines.push(row(["section", "flow_m3s", "head_m", "efficiency", w("shaft_power_w"), "npshr_m"]));
   for (const p of f.result.curve) lines.push(row(["pump_curve", p.flow, p.head, p.efficiency, p.power, p.npshr]));
   lines.push([]);
-  lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", "shaft_power_w", "npsh_margin_ratio", "no_operating_point_reason"]));
+  lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", w("shaft_power_w"), "npsh_margin_ratio", "no_operating_point_reason"]));
   for (const b of f.result.band ?? []) lines.push(row(["band", b.edge, b.flow, b.head, b.efficiency, b.shaftPower, b.npshMarginRatio, b.reason]));
   const npshPoints = f.result.npsh?.judgedAt;
   if (npshPoints?.length) {
@@ -31,11 +42,11 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
     lines.push(row(["section", "at", "flow_m3s", "npsha_m", "npshr_m", "npsh_margin_ratio"]));
     for (const p of npshPoints) lines.push(row(["npsh", p.at, p.flow, p.available, p.required, p.marginRatio]));
   }
-  energySections(f, lines);
+  energySections(f, lines, basis);
   lines.push([]);
-  lines.push(row(["section", "figure", "value", "unit"]));
+  lines.push(row(["section", "figure", "value", "unit", ...(basis ? ["basis"] : [])]));
   const fig = f.result.figures;
-  const add = (name: string, value: unknown, unit: string) => lines.push(row(["figures", name, value, unit]));
+  const add = (name: string, value: unknown, unit: string) => lines.push(row(["figures", name, value, unit, ...(basis ? [basisOf(basis, name)] : [])]));
   add("operating_flow", f.result.operating?.flow, "m3/s");
   add("operating_head", f.result.operating?.head, "m");
   const verdict = f.result.verdict;
@@ -50,6 +61,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("efficiency", fig?.efficiency, "1");
   add("hydraulic_power", fig?.hydraulicPower, "W");
   add("shaft_power", fig?.shaftPower, "W");
+  if (basis) add("shaft_power_per_pump", fig?.shaftPower != null ? fig.shaftPower / basis.n : null, "W");
   add("bep_ratio", fig?.bepRatio, "1");
   add("npsh_available", fig?.npshAvailable, "m");
   add("npsh_required", fig?.npshRequired, "m");
@@ -70,11 +82,14 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("motor_efficiency_source", fig?.motor?.efficiencySource ?? null, "");
   add("drive_efficiency", fig?.motor?.driveEfficiency ?? null, "1");
   add("electrical_input", fig?.motor?.electricalPower ?? null, "W");
+  if (basis) add("electrical_input_per_pump", fig?.motor?.electricalPower != null ? fig.motor.electricalPower / basis.n : null, "W");
   add("annual_energy_electrical", fig?.annualEnergyKWh, "kWh");
   add("annual_cost", fig?.annualCost, fig?.motor?.currency || "currency");
   add("library", f.pump.library.name, "");
   add("library_revision", f.pump.library.revision, "");
   add("model", f.pump.model, "");
+  add("curve_data_source", traced ? `${traced.source}. ${traced.caution}` : traced === null ? "as imported (not traced)" : "not recorded (selected before traced curve data was marked)", "");
+  for (const [name, value, unit] of cautionFigures(f)) add(name, value, unit);
   energyFigures(f, add);
   return toCsv(lines, { precision: 10 });
 }
@@ -84,13 +99,13 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
  * at the step they name) and the life-cycle cost year by year, as the report shows them. Nothing for a selection frozen
  * before load profiles, or whose cycle could not be computed (the figures say why).
  */
-function energySections(f: FrozenSelection, lines: unknown[][]) {
+function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasis | null) {
   const cycle = f.energy?.cycle;
   if (cycle) {
     lines.push([]);
     lines.push(row([
-      "section", "step", "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", "shaft_power_w",
-      "load_fraction", "motor_efficiency", "drive_efficiency", "electrical_input_w", "energy_kwh", "engine_status", "message", "warnings",
+      "section", "step", "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", powerColumn(basis, "shaft_power_w"),
+      "load_fraction", "motor_efficiency", "drive_efficiency", powerColumn(basis, "electrical_input_w"), "energy_kwh", "engine_status", "message", "warnings",
     ]));
     cycle.steps.forEach((st, i) =>
       lines.push(row([
@@ -107,6 +122,9 @@ function energySections(f: FrozenSelection, lines: unknown[][]) {
     lcc.yearly.forEach((y, i) => lines.push(row(["life_cycle_cost", y.year, y.energyCost, y.presentValue, lcc.cumulative[i + 1]])));
   }
 }
+
+/** A figure's basis for pumps in parallel or series: per pump, the duty pumps together, or "" where neither applies. */
+const basisOf = (b: PumpsBasis, name: string) => (PER_PUMP_FIGURES.has(name) ? "per pump" : ALL_PUMPS_FIGURES.has(name) ? b.together : "");
 
 const currencyOf = (f: FrozenSelection) => f.result.figures?.motor?.currency || "currency";
 

@@ -3,7 +3,8 @@
 import { and, desc, eq } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
-import { curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems } from "@db/schema";
+import { curveSets, libraries, libraryRevisions, projects, pumpModels, selections, systems, uploads } from "@db/schema";
+import { tracedOrigin } from "../tracer/sniff";
 import type { Viewer } from "../libraries";
 import { readStoredSelection, type FrozenSelection } from "./stored-selection";
 import { problemErrors, problemsSummary, type DocProblem } from "./stored-doc";
@@ -21,9 +22,13 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
   const cand = bench.candidates.find((x) => x.id === c.id);
   if (!cand || !cand.result) throw data("This candidate cannot be evaluated on the system; fix the inputs first.", { status: 409 });
   const [rev] = await db()
-    .select({ revisionId: curveSets.revisionId, number: libraryRevisions.number, libraryId: libraries.id, libraryName: libraries.name, modelType: pumpModels.type, modelSize: pumpModels.nominalSize })
+    .select({
+      revisionId: curveSets.revisionId, number: libraryRevisions.number, note: libraryRevisions.note, uploadId: uploads.id, uploadSource: uploads.source,
+      libraryId: libraries.id, libraryName: libraries.name, modelType: pumpModels.type, modelSize: pumpModels.nominalSize,
+    })
     .from(curveSets)
     .innerJoin(libraryRevisions, eq(libraryRevisions.id, curveSets.revisionId))
+    .leftJoin(uploads, eq(uploads.id, libraryRevisions.uploadId))
     .innerJoin(libraries, eq(libraries.id, libraryRevisions.libraryId))
     .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
     .where(eq(curveSets.id, c.curveSetId));
@@ -38,7 +43,8 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       model: cand.model,
       type: rev?.modelType ?? "",
       size: rev?.modelSize ?? "",
-      library: { id: rev?.libraryId, name: rev?.libraryName, revision: rev?.number, revisionId: rev?.revisionId },
+      // A traced revision's source and caution go with the report and the CSV (null: not traced).
+      library: { id: rev?.libraryId, name: rev?.libraryName, revision: rev?.number, revisionId: rev?.revisionId, traced: rev ? tracedOrigin(rev.note, rev.uploadId != null ? { source: rev.uploadSource } : null) : null },
       curveSetId: c.curveSetId,
       speed: cand.set.speed,
       impellerDiameter: cand.set.impellerDiameter,

@@ -14,6 +14,13 @@ import { readStoredDoc, type DocProblem, type DocWords } from "./stored-doc";
 import type { Adjustment, CurvePointsIn, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
 
+/**
+ * The library revision a selection's curve came from. `traced`: the source ("traced from <file>, page N") and the
+ * tracer's caution when the revision was imported from a traced picture, null when it was not; absent in selections
+ * frozen before it was kept (then unknown).
+ */
+export type FrozenLibrary = { id?: number; name?: string; revision?: number; revisionId?: number; traced?: { source: string; caution: string } | null };
+
 /** A selection as frozen (selections.server.ts `selectCandidate`): everything its report, exports and field checks read. */
 export type FrozenSelection = {
   format: string;
@@ -21,7 +28,7 @@ export type FrozenSelection = {
   project: { id: number; name: string };
   system: { id: number; name: string; input: SystemInput };
   systemCurve: ReturnType<typeof evaluateSystem> | null;
-  pump: { label: string; model: string; type: string; size: string; library: { id?: number; name?: string; revision?: number; revisionId?: number }; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: CurvePointsIn };
+  pump: { label: string; model: string; type: string; size: string; library: FrozenLibrary; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: CurvePointsIn };
   adjustment: Adjustment;
   result: ReturnType<typeof evaluateCandidate>;
   /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
@@ -109,7 +116,7 @@ export const FrozenSelectionSchema = obj({
   systemCurve: v.nullable(SystemCurve),
   pump: obj({
     label: str, model: str, type: str, size: str,
-    library: obj({ id: v.optional(num), name: v.optional(str), revision: v.optional(num), revisionId: v.optional(num) }),
+    library: obj({ id: v.optional(num), name: v.optional(str), revision: v.optional(num), revisionId: v.optional(num), traced: v.nullish(obj({ source: str, caution: str })) }),
     curveSetId: num, speed: numOrNull, impellerDiameter: numOrNull,
     points: v.pipe(v.array(CurvePoint), v.minLength(2, "A pump curve needs at least 2 points.")),
   }),
@@ -123,7 +130,7 @@ export const FrozenSelectionSchema = obj({
 const LABELS: Record<string, string> = {
   ...INPUT_LABELS,
   format: "format", frozenAt: "date frozen", project: "project", system: "system", input: "inputs", systemCurve: "system curve", pump: "pump",
-  label: "label", model: "model", type: "type", size: "size", library: "library", revision: "revision", curveSetId: "curve id", speed: "speed",
+  label: "label", model: "model", traced: "traced curve data", source: "source", caution: "caution", type: "type", size: "size", library: "library", revision: "revision", curveSetId: "curve id", speed: "speed",
   impellerDiameter: "impeller diameter", points: "curve points", adjustment: "adjustment", method: "adjusted by", ratio: "ratio", arrangement: "pumps",
   dutyPumps: "duty pumps", standbyPumps: "standby pumps", motorRating: "motor rating", serviceFactor: "service factor", ieClass: "motor efficiency class",
   result: "result", curve: "curve as used", operating: "operating point", figures: "figures at the operating point", band: "band", verdict: "verdict",

@@ -19,7 +19,6 @@ const GET_ONLY = [
   "api", // the API reference page
   "field",
   "field/checks/:id",
-  "libraries/:id/trace",
   "selections/:id",
   "*", // not found
   "healthz",

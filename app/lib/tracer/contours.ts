@@ -6,6 +6,13 @@
  * runs at efficiency η at that flow. The crossings are found segment by segment (straight-line
  * intersection of two segments, common practice); the impeller's efficiency curve is then the
  * crossings in order of flow, read between them with the engine's interpolation (curves.ts).
+ * Between two consecutive crossings of the same level the contours say only that the efficiency is
+ * above (or below) that level, not what it is: inside the innermost contour a curve crosses lies its
+ * peak, which no contour traces. There the efficiency is not read (`contourGaps`; null from
+ * `efficiencyFromContours`), never a flat plateau at the level (the engine's BEP, the first point of
+ * highest efficiency, would land at the plateau's left end).
+ * A contour is a closed loop only when it says so (`closed`: the island tracer's outline, or the
+ * user's choice); an arm of a line clicked by hand is open, and no chord joins its ends.
  * Coordinates: give both in the same plane (axis space of the calibration: linear, or log10 for a
  * logarithmic axis) so that straight pixel segments stay straight.
  */
@@ -43,7 +50,24 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
   return out.filter((p, i) => i === 0 || !(p.level === out[i - 1].level && Math.abs(p.x - out[i - 1].x) < 1e-9 * (1 + Math.abs(p.x))));
 }
 
-/** The impeller's efficiency at flow x read from the crossings (null outside their range). */
+/**
+ * A flow span between two consecutive crossings of one level: the contours do not say the efficiency
+ * there. `innermost`: the level is the highest the curve crosses (its peak lies in such a span).
+ */
+export type ContourGap = { from: number; to: number; level: number; innermost: boolean };
+
+/** The spans between consecutive crossings (in order of flow) of the same level. */
+export function contourGaps(xs: readonly Crossing[]): ContourGap[] {
+  const top = Math.max(...xs.map((p) => p.level));
+  const out: ContourGap[] = [];
+  for (let i = 0; i + 1 < xs.length; i++) {
+    if (xs[i].level === xs[i + 1].level && xs[i + 1].x > xs[i].x) out.push({ from: xs[i].x, to: xs[i + 1].x, level: xs[i].level, innermost: xs[i].level === top });
+  }
+  return out;
+}
+
+/** The impeller's efficiency at flow x read from the crossings (null outside their range and inside a gap). */
 export function efficiencyFromContours(xs: readonly Crossing[], x: number): number | null {
+  if (contourGaps(xs).some((g) => x > g.from && x < g.to)) return null;
   return valueAt(xs.map((p) => ({ x: p.x, y: p.level })), x);
 }

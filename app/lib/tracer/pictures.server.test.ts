@@ -76,6 +76,18 @@ describe("storeTracedCsv → the ordinary import", () => {
     expect(rev.note).toBe(`traced from datasheet.pdf, page 3. ${TRACE_CAUTION} checked by hand`);
   });
 
+  test("the page's note on the peak it did not trace goes into the source line and the revision's note", async () => {
+    const pic = await storePicture(viewer, lib, new File([chartPdf()], "islands.pdf"));
+    const note = "peak not traced, efficiency blank inside the innermost contour: 210 mm, 2900 rpm above 78 % at 31.4–59.8 m³/h";
+    const up = await storeTracedCsv(viewer, lib, pic, csv, 1, note);
+    const [row] = await db().select().from(uploads).where(eq(uploads.id, up));
+    expect(row.source).toBe(`traced from islands.pdf, page 1; ${note}`);
+    const { text, lib: l } = await getUpload(viewer, lib, up);
+    const r = await importUpload(viewer, lib, up, analyseStored(text, l).mapping, "");
+    const [rev] = await db().select().from(libraryRevisions).where(eq(libraryRevisions.id, r.revisionId));
+    expect(rev.note).toBe(`traced from islands.pdf, page 1; ${note}. ${TRACE_CAUTION}`);
+  });
+
   test("a corrected copy of a traced upload (the mapping page's grid) keeps its source", async () => {
     const pic = await storePicture(viewer, lib, new File([chartPdf()], "fix.pdf"));
     const up = await storeTracedCsv(viewer, lib, pic, csv, 1);

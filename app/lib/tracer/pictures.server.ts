@@ -54,14 +54,15 @@ export async function pictureBytes(viewer: Viewer, libraryId: number, pictureId:
 /**
  * Keeps the traced points (our CSV, written by the page) as an upload of the library with its
  * source line; the caller sends the user to the upload's mapping page, where the same checks and
- * the same import as for any CSV apply.
+ * the same import as for any CSV apply. `note`: the page's word on what it did not trace (the peak
+ * inside the innermost contour, peak.ts), kept in the source line and so in the revision's note.
  */
-export async function storeTracedCsv(viewer: Viewer, libraryId: number, pictureId: number, csv: string, page: number | null): Promise<number> {
+export async function storeTracedCsv(viewer: Viewer, libraryId: number, pictureId: number, csv: string, page: number | null, note = ""): Promise<number> {
   const { lib, picture } = await getPicture(viewer, libraryId, pictureId);
   const bytes = Buffer.from(csv, "utf8");
   if (bytes.length === 0 || !csv.trim()) throw new UploadRejected("Nothing was traced yet.");
   if (bytes.length > MAX_TRACED_CSV_BYTES) throw new UploadRejected(`The traced points are ${(bytes.length / 1024).toFixed(0)} kB; the limit is ${MAX_TRACED_CSV_BYTES / 1024} kB.`);
   const p = picture.contentType === "application/pdf" && page != null && Number.isInteger(page) && page >= 1 && page <= 100000 ? page : null;
   const base = picture.filename.replace(/\.[a-z0-9]{1,5}$/i, "").replace(/[^\w.-]+/g, "-").slice(0, 120) || "picture";
-  return insertUpload(viewer, lib.id, `traced-${base}${p ? `-p${p}` : ""}.csv`, bytes, { source: tracedSource(picture.filename, picture.contentType, p), tracePictureId: picture.id });
+  return insertUpload(viewer, lib.id, `traced-${base}${p ? `-p${p}` : ""}.csv`, bytes, { source: tracedSource(picture.filename, picture.contentType, p, note), tracePictureId: picture.id });
 }

@@ -11,10 +11,35 @@ export function sniffPicture(bytes: Uint8Array): PictureType | null {
   return null;
 }
 
-/** "traced from <file>, page N" (N only for a PDF): the source line kept with the upload and the revision. */
-export function tracedSource(filename: string, type: string, page: number | null): string {
+/** The source line's room (`uploads.source`, VARCHAR(300)). */
+export const SOURCE_MAX = 300;
+
+/**
+ * "traced from <file>, page N" (N only for a PDF): the source line kept with the upload and the revision;
+ * with the page's `note` after "; " (the peak not traced: peak.ts `peakNote`), control characters made
+ * spaces, cut with "…" where the line would pass `SOURCE_MAX`.
+ */
+export function tracedSource(filename: string, type: string, page: number | null, note = ""): string {
   const name = filename.replace(/[\r\n\t]/g, " ").slice(0, 200);
-  return type === "application/pdf" && page ? `traced from ${name}, page ${page}` : `traced from ${name}`;
+  const base = type === "application/pdf" && page ? `traced from ${name}, page ${page}` : `traced from ${name}`;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what is replaced
+  const n = note.replace(/[\u0000-\u001f\u007f]+/g, " ").trim();
+  if (!n) return base;
+  const room = SOURCE_MAX - base.length - 2;
+  return `${base}; ${n.length <= room ? n : `${n.slice(0, room - 1).trimEnd()}…`}`;
 }
 
 export const TRACE_CAUTION = "Traced data is approximate: check it against the datasheet before relying on a selection.";
+
+/**
+ * Whether a library revision's curves were traced, and from what: its upload's source line while the upload is linked
+ * (an upload with no source was not traced), else — the upload no longer linked — what the revision's note records
+ * (`importUpload` writes "<source>. <TRACE_CAUTION> <the user's note>"). Null when not traced. The caution is the tracer's own.
+ * @param note the revision's note as stored
+ * @param upload the revision's upload (its source), or null when the revision links none any more
+ */
+export function tracedOrigin(note: string, upload: { source: string | null } | null): { source: string; caution: string } | null {
+  if (upload) return upload.source ? { source: upload.source, caution: TRACE_CAUTION } : null;
+  const at = note.indexOf(`. ${TRACE_CAUTION}`);
+  return at > 0 ? { source: note.slice(0, at), caution: TRACE_CAUTION } : null;
+}

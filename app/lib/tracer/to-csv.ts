@@ -8,12 +8,19 @@
  * converted from the axis units to the format's units (m³/h, m, %, kW, m) with the importer's SI
  * factors (app/lib/import/units-in-headers.ts, NIST SP 811). Traced points left of zero flow (the
  * stroke's end cap at the axis) are dropped, so the curve starts at or after zero flow.
+ * Each curve is converted from its own unit (`TracedSet.units`: its panel's; two head panels may be in
+ * m and ft), else from the call's. Efficiency is left blank over a set's `efficiencyGaps` (read from
+ * contours: between two crossings of one level, contours.ts) and written at its `peaks`, rows of their
+ * own (the middle of the innermost contour, when the user took it as the BEP). The impeller column is
+ * left out when no set gives an impeller Ø (> 0): the importer reads such curves without one; a blank
+ * Ø beside others is written blank, which the importer refuses (the page asks for it first).
  */
 import { toCsv } from "~/lib/shared/csv";
 import { SI_FACTOR, type Unit } from "~/lib/import";
 import { resample, valueAt, type XY } from "./curves";
 
 export const CSV_HEADER = ["model", "type", "size", "speed_rpm", "impeller_mm", "flow_m3h", "head_m", "efficiency_pct", "power_kw", "npshr_m"];
+const IMPELLER_COLUMN = CSV_HEADER.indexOf("impeller_mm");
 
 export type Quantity = "head" | "efficiency" | "power" | "npshr";
 export type TraceUnits = { flow: Unit; head: Unit; efficiency: Unit; power: Unit; npshr: Unit };
@@ -26,7 +33,16 @@ export type TracedSet = {
   speedRpm: number;
   impellerMm: number;
   curves: Partial<Record<Quantity, XY[]>>;
+  /** The unit each curve was traced in (its panel's), over the units given to tracedRows. */
+  units?: Partial<Record<Quantity, Unit>>;
+  /** Flow spans (axis unit) where efficiency is not known: left blank. */
+  efficiencyGaps?: { from: number; to: number }[];
+  /** Rows of their own: flow (axis unit) and efficiency (in its unit) taken as the peak. */
+  peaks?: XY[];
 };
+
+/** An impeller Ø given (a number above zero): a blank field is NaN, older pages wrote 0. */
+export const impellerGiven = (mm: number) => Number.isFinite(mm) && mm > 0;
 
 /** Value in `unit` of `field` → value in `target` unit. */
 function convert(field: "flow" | "head" | "efficiency" | "power" | "npshr", unit: Unit, target: Unit, x: number): number {
@@ -39,22 +55,37 @@ const round = (x: number | null, digits: number) => (x == null || !Number.isFini
 
 /** The CSV rows (header first) for the traced sets; a set without a head curve of 3+ points is left out. */
 export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points = 15): unknown[][] {
-  const rows: unknown[][] = [CSV_HEADER];
+  const withImpeller = sets.some((s) => impellerGiven(s.impellerMm));
+  const keep = (row: unknown[]) => (withImpeller ? row : row.filter((_, i) => i !== IMPELLER_COLUMN));
+  const rows: unknown[][] = [keep(CSV_HEADER)];
   for (const s of sets) {
     // A stroke's end cap reaches a pixel or two left of zero flow: those points are not data.
     const head = (s.curves.head ?? []).filter((p) => p.x >= 0);
     if (head.length < 3) continue;
-    for (const p of resample(head, Math.max(3, points))) {
+    const unitOf = (q: Quantity) => s.units?.[q] ?? units[q];
+    const kept = resample(head, Math.max(3, points));
+    const x0 = kept[0].x, x1 = kept[kept.length - 1].x;
+    // The peaks the user took become rows of their own (on a row's flow already: that row).
+    const peaks = (s.peaks ?? []).filter((p) => p.x >= x0 && p.x <= x1);
+    const near = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * (1 + Math.abs(b));
+    const flows = [...kept.map((p) => p.x), ...peaks.map((p) => p.x).filter((x) => !kept.some((p) => near(p.x, x)))].sort((a, b) => a - b);
+    for (const x of flows) {
+      const y = kept.find((p) => p.x === x)?.y ?? valueAt(kept, x);
+      if (y == null) continue;
+      const peak = peaks.find((p) => near(p.x, x));
+      const unread = (s.efficiencyGaps ?? []).some((g) => x > g.from && x < g.to);
       const at = (q: Exclude<Quantity, "head">, target: Unit) => {
+        if (q === "efficiency" && peak) return convert(q, unitOf(q), target, peak.y);
+        if (q === "efficiency" && unread) return null;
         const c = s.curves[q];
-        const y = c && c.length >= 2 ? valueAt(c, p.x) : null;
-        return y == null ? null : convert(q, units[q], target, y);
+        const v = c && c.length >= 2 ? valueAt(c, x) : null;
+        return v == null ? null : convert(q, unitOf(q), target, v);
       };
-      rows.push([
-        s.model, s.type ?? "", s.size ?? "", s.speedRpm, round(s.impellerMm, 1),
-        round(convert("flow", units.flow, "m3/h", p.x), 4), round(convert("head", units.head, "m", p.y), 4),
+      rows.push(keep([
+        s.model, s.type ?? "", s.size ?? "", s.speedRpm, impellerGiven(s.impellerMm) ? round(s.impellerMm, 1) : null,
+        round(convert("flow", units.flow, "m3/h", x), 4), round(convert("head", unitOf("head"), "m", y), 4),
         round(at("efficiency", "%"), 2), round(at("power", "kW"), 4), round(at("npshr", "m"), 4),
-      ]);
+      ]));
     }
   }
   return rows;

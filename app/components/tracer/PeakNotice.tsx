@@ -1,0 +1,22 @@
+// The peak the contours do not trace (app/lib/tracer/peak.ts): one warning per head curve whose
+// efficiency comes from contours, with the box that takes the middle of its innermost contour as the
+// best-efficiency point. Unticked, those rows stay blank. The same facts go with the import, short,
+// into the source line and so into the revision's note.
+import { peakWarning, type UnreadPeak } from "~/lib/tracer/peak";
+
+export function PeakNotice(props: { peaks: UnreadPeak[]; flowUnit: string; onTake: (curveId: number, taken: boolean) => void }) {
+  if (!props.peaks.length) return null;
+  return (
+    <div className="space-y-2 rounded border border-amber-300 bg-amber-50 p-2 text-xs" data-testid="peak-notice" role="note">
+      {props.peaks.map((p, i) => (
+        <div key={`${p.curveId}-${i}`} className="space-y-1">
+          <p data-testid={`peak-warning-${p.curveId}`}>{peakWarning(p, props.flowUnit)}</p>
+          <label className="flex items-center gap-1">
+            <input type="checkbox" data-testid={`peak-take-${p.curveId}`} checked={p.taken} onChange={(e) => props.onTake(p.curveId, e.target.checked)} />
+            Take the middle of the {String(+p.level.toFixed(2))} % contour as {p.curve}’s best-efficiency point
+          </label>
+        </div>
+      ))}
+    </div>
+  );
+}

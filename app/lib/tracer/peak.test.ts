@@ -1,0 +1,77 @@
+// The peak the contours do not trace (peak.ts, contours.ts, to-csv.ts): blank rows over a gap, the
+// middle the user took written as a row of its own, the words on the page and in the source line.
+// Invented curves and levels; expected values worked out by hand beside each check.
+import { describe, expect, it } from "vitest";
+import { contourGaps, tracedRows, type TracedSet } from "./index";
+import { peakNote, peakWarning, type UnreadPeak } from "./peak";
+import { SOURCE_MAX, tracedSource } from "./sniff";
+
+const units = { flow: "m3/h", head: "m", efficiency: "%", power: "kW", npshr: "m" } as const;
+const line = (f: (x: number) => number, x0: number, x1: number, n = 41) => Array.from({ length: n }, (_, i) => ({ x: x0 + ((x1 - x0) * i) / (n - 1), y: f(x0 + ((x1 - x0) * i) / (n - 1)) }));
+// Head 40 − 0.004·Q² over 0–80 m³/h; efficiency read from contours 70 % at 20 and 60, 74 % at 30 and 50 (innermost).
+const set: TracedSet = {
+  model: "Invented 40-160", speedRpm: 2900, impellerMm: 160,
+  curves: { head: line((q) => 40 - 0.004 * q * q, 0, 80), efficiency: [{ x: 20, y: 70 }, { x: 30, y: 74 }, { x: 50, y: 74 }, { x: 60, y: 70 }] },
+  efficiencyGaps: [{ from: 30, to: 50 }],
+};
+
+describe("contour gaps", () => {
+  it("are the spans between consecutive crossings of one level; the highest level's is the innermost", () => {
+    const xs = [{ x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }, { x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }];
+    expect(contourGaps(xs)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
+    expect(contourGaps([{ x: 1, y: 0, level: 70 }, { x: 2, y: 0, level: 74 }])).toEqual([]);
+  });
+});
+
+describe("our CSV over a gap", () => {
+  it("leaves efficiency blank strictly inside the gap and reads it elsewhere", () => {
+    const rows = tracedRows([set], units, 9); // rows every 10 m³/h
+    const eff = rows.slice(1).map((r) => [r[5], r[7]]);
+    expect(eff).toEqual([[0, null], [10, null], [20, 70], [30, 74], [40, null], [50, 74], [60, 70], [70, null], [80, null]]);
+  });
+
+  it("writes a peak the user took as a row of its own, head on the kept points' interpolant", () => {
+    const rows = tracedRows([{ ...set, peaks: [{ x: 43, y: 74 }] }], units, 9).slice(1);
+    expect(rows.map((r) => r[5])).toEqual([0, 10, 20, 30, 40, 43, 50, 60, 70, 80]);
+    const peak = rows[5];
+    expect(peak[7]).toBe(74);
+    // 40 − 0.004·43² = 32.604 m (the invented curve); the monotone cubic through rows every 10 m³/h is within 0.01 m of it.
+    expect(Math.abs((peak[6] as number) - 32.604)).toBeLessThan(0.01);
+    expect(rows[4][7]).toBeNull(); // the rest of the span stays blank
+  });
+
+  it("puts a peak on an existing row's flow onto that row, and ignores one outside the head's flows", () => {
+    const rows = tracedRows([{ ...set, peaks: [{ x: 40, y: 74 }, { x: 95, y: 74 }] }], units, 9).slice(1);
+    expect(rows.map((r) => [r[5], r[7]])).toEqual([[0, null], [10, null], [20, 70], [30, 74], [40, 74], [50, 74], [60, 70], [70, null], [80, null]]);
+  });
+
+  it("converts each curve with its own unit over the call's", () => {
+    const ft = { ...set, efficiencyGaps: [], curves: { head: line((q) => (40 - 0.004 * q * q) / 0.3048, 0, 80) }, units: { head: "ft" as const } };
+    // 1 ft = 0.3048 m (NIST SP 811): the head in ft comes back in metres, 40 m at zero flow.
+    expect(tracedRows([ft], units, 9)[1][6]).toBeCloseTo(40, 4);
+  });
+});
+
+describe("words about the peak", () => {
+  const p: UnreadPeak = { curveId: 2, curve: "Curve 2", impellerMm: 160, speedRpm: 2900, level: 74, from: 30, to: 50, next: null, midpoint: 40, taken: false };
+
+  it("on the page: the span, the bound, what the engine does, and the choice", () => {
+    expect(peakWarning(p, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. Inside the 74 % contour, from 30.0 to 50.0 m³/h, the contours say only that the efficiency is above 74 %, so the efficiency there is left blank: the engine reads it below 74 % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, 40.0 m³/h, as the best-efficiency point at 74 %.",
+    );
+    expect(peakWarning({ ...p, taken: true, next: 78, impellerMm: NaN }, "l/s")).toBe(
+      "Curve 2 (2900 rpm): the peak is not traced. Inside the 74 % contour, from 30.0 to 50.0 l/s, the contours say only that the efficiency is above 74 % and below 78 %; the middle of that span, 40.0 l/s, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points), the rest of the span blank.",
+    );
+  });
+
+  it("in the source line: short, after the file and page, cut to the column's 300 characters", () => {
+    const note = peakNote([p, { ...p, impellerMm: 150, taken: true }], "m3/h");
+    expect(note).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h; 150 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h, BEP taken at its middle 40.0 m³/h at 74 %");
+    expect(tracedSource("sheet.pdf", "application/pdf", 2, note)).toBe(`traced from sheet.pdf, page 2; ${note}`);
+    expect(tracedSource("sheet.pdf", "application/pdf", 2, "")).toBe("traced from sheet.pdf, page 2");
+    const long = tracedSource("x".repeat(200), "image/png", null, `${note}\n${note}`);
+    expect(long).toHaveLength(SOURCE_MAX);
+    expect(long.endsWith("…")).toBe(true);
+    expect(long).not.toMatch(/\n/);
+  });
+});

@@ -1,0 +1,61 @@
+/**
+ * What the tracer says about the peak it did not trace. Pure: no DOM.
+ *
+ * Read from iso-efficiency contours, a head curve's efficiency is known at its crossings only; inside
+ * the innermost contour it crosses the chart says only that the efficiency is above that contour's
+ * level (and below the next level drawn, when the chart has one the curve does not reach). The CSV
+ * leaves those rows blank (contours.ts, to-csv.ts): the engine then reads efficiency there from the
+ * rows either side, below the level, and puts the best-efficiency point (BEP) on a row outside the
+ * contour. Only when the user confirms it is the middle of that span (in axis space: the middle on
+ * the paper) written as a row at the contour's level and so taken as the BEP. These sentences say
+ * which, with the numbers, on the tracer page (`peakWarning`) and in the source line the revision's
+ * note carries (`peakNote`, short: the line has `SOURCE_MAX` characters).
+ */
+import { fmtNum } from "~/lib/shared/format";
+import { impellerGiven } from "./to-csv";
+
+/** One head curve's innermost contour span (flows in the flow axis's unit). */
+export type UnreadPeak = {
+  /** The curve's id and name on the page, e.g. 3, "Curve 3". */
+  curveId: number;
+  curve: string;
+  impellerMm: number;
+  speedRpm: number;
+  /** The innermost level it crosses, %. */
+  level: number;
+  from: number;
+  to: number;
+  /** The lowest level above `level` drawn on the panel (the peak is below it), or null. */
+  next: number | null;
+  /** The middle of the span (on the paper). */
+  midpoint: number;
+  /** The user took the middle as the BEP. */
+  taken: boolean;
+};
+
+/** "m3/h" → "m³/h" for reading. */
+export const flowUnitText = (unit: string) => unit.replace("m3", "m³");
+
+/** A value the user typed (level, Ø, speed) as typed: at most two decimals, no trailing zeros. */
+const typed = (x: number) => String(+x.toFixed(2));
+const keyText = (p: UnreadPeak) => `${impellerGiven(p.impellerMm) ? `${typed(p.impellerMm)} mm, ` : ""}${typed(p.speedRpm)} rpm`;
+const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` : `above ${typed(p.level)} % and below ${typed(p.next)} %`);
+
+/** The tracer page's warning for one curve. */
+export function peakWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
+  const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
+  return p.taken
+    ? `${head}; the middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`}), the rest of the span blank.`
+    : `${head}, so the efficiency there is left blank: the engine reads it below ${typed(p.level)} % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+}
+
+/** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
+export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
+  if (!ps.length) return "";
+  const u = flowUnitText(flowUnit);
+  const one = (p: UnreadPeak) =>
+    `${keyText(p)} above ${typed(p.level)} % at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}${p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : ""}`;
+  return `peak not traced, efficiency blank inside the innermost contour: ${ps.map(one).join("; ")}`;
+}

@@ -1,0 +1,1 @@
+ALTER TABLE `workspaces` ADD `checkout_started_at` datetime;
