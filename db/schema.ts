@@ -514,6 +514,9 @@ export const fieldChecks = mysqlTable(
     notes: text("notes").notNull(),
     /** Id made on the device that recorded the check (offline sync): the server accepts it once. Null for checks from before. */
     clientId: varchar("client_id", { length: 64 }),
+    /** The phone's clock when the readings were taken (kept on it offline, sent later); null from the page's own form and for checks from before. */
+    takenAt: datetime("taken_at", { mode: "date", fsp: 3 }),
+    /** The server's clock when the check was recorded. */
     createdAt: createdAt(),
   },
   (t) => [index("field_checks_selection_idx").on(t.selectionId), index("field_checks_chain_idx").on(t.chainId), uniqueIndex("field_checks_client_uq").on(t.clientId)],

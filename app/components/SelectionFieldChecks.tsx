@@ -1,13 +1,13 @@
 // The field checks recorded against a selection, on its report page (not printed: the report is the
 // frozen selection; checks come later). Each links to its own page at /field/checks/:id.
-import type { Verdict } from "~/lib/fieldchecks";
-import { VerdictBadge } from "./fieldcheck";
+import type { CheckTimes, Verdict } from "~/lib/fieldchecks";
+import { CheckWhen, VerdictBadge } from "./fieldcheck";
 import { ListTable } from "./ListTable";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
-import { fmtDate, fmtDateTime } from "~/lib/shared/format";
+import { fmtDate } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
-export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; byName: string; byWorkspace: string } & (
+export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string } & (
   | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; power: string }
   | { readable: false; unreadable: string }
 );
@@ -23,11 +23,11 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
           No field check recorded yet. <a href={`/field/selections/${selectionId}`}>Record one</a> when the pump runs on site.
         </p>
       ) : (
-        <ListTable head={["Date", "Recorded by", "Delivered", "Verdict", "Rule", ""]} label="Field checks of this selection">
+        <ListTable head={["Taken", "Recorded by", "Delivered", "Verdict", "Rule", ""]} label="Field checks of this selection">
           {checks.map((c) => (
             <tr key={c.id} className={`border-t border-slate-100 align-top ${c.superseded ? "text-slate-500" : ""}`}>
               <td className="py-1">
-                {fmtDateTime(c.createdAt)}
+                <CheckWhen times={c.times} />
                 {c.version > 1 ? <span className="text-xs"> · version {c.version}</span> : null}
                 {c.superseded ? <span className="text-xs"> · amended since</span> : null}
               </td>
@@ -55,7 +55,7 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                 </td>
               )}
               <td>
-                <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.createdAt)}`}>
+                <a href={`/field/checks/${c.id}`} aria-label={`Open the field check of ${fmtDate(c.times.takenAt ?? c.createdAt)}`}>
                   Open
                 </a>
               </td>

@@ -5,7 +5,7 @@ import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { fmtPctLimit } from "~/engine/quantityText";
-import { VERDICT_TEXT, type CheckResult, type Verdict } from "~/lib/fieldchecks";
+import { VERDICT_TEXT, type CheckResult, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
 export function FieldCaution() {
@@ -70,6 +70,20 @@ const BADGE: Record<Verdict, string> = {
   fail: "border-fail text-fail bg-fail-soft",
   unknown: "border-slate-400 text-slate-700 bg-slate-50",
 };
+
+/** When a check's readings were taken (the phone's clock) and recorded (the server's), with why the first may be wrong (taken-at.ts). */
+export function CheckWhen({ times }: { times: CheckTimes }) {
+  return (
+    <>
+      {times.text}
+      {times.warnings.map((w) => (
+        <span key={w} className="block text-xs text-fail" data-testid="clock-warning">
+          {w}
+        </span>
+      ))}
+    </>
+  );
+}
 
 export function VerdictBadge({ verdict, grade, large }: { verdict: Verdict; grade?: string; large?: boolean }) {
   return (

@@ -13,7 +13,6 @@ import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/compo
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
-import { fmtUtc } from "~/lib/shared/format";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -33,6 +32,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     photos: c.photos,
     versions: c.versions,
     latest: c.latest,
+    /** When the readings were taken (the phone's clock) and recorded (the server's), and why the first may be wrong. */
+    times: c.times,
     justRecorded: readQuery(url, v.object({ recorded: QueryFlag })).recorded,
     unitSystem: m.user.units,
   };
@@ -227,9 +228,16 @@ function RecordHead({ d }: { d: RecordData }) {
           Field check {d.check.id} <span className="text-base font-normal text-slate-600">version {d.check.version}</span>
         </h1>
         <p className="text-sm text-slate-700">
-          {d.selection.projectName} · {d.selection.systemName} · recorded {fmtUtc(d.check.createdAt)} by {d.recordedBy} ({d.recordedIn})
+          {d.selection.projectName} · {d.selection.systemName} · {d.times.text} by {d.recordedBy} ({d.recordedIn})
         </p>
       </header>
+      {d.times.warnings.length ? (
+        <div className="caution text-sm" data-testid="clock-warnings">
+          {d.times.warnings.map((w) => (
+            <p key={w}>{w}</p>
+          ))}
+        </div>
+      ) : null}
       {d.justRecorded ? (
         <p role="status" className="panel text-sm">
           Check recorded. The engineer of the project has been sent a notice.

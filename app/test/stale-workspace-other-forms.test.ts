@@ -3,7 +3,8 @@
 // (/account: a token belongs to one workspace) and a field check (/field/selections/:id, and the phone's
 // queue): a selection shared with another workspace is open to both, and the check is recorded for the
 // session's. With A's page open and B chosen in another tab, each acted on B; now each refuses (409, the
-// words of `staleWorkspacePage`), is refused without the page's workspace (400), and works from B's page.
+// words of `staleWorkspacePage`), is refused without the page's workspace (400; the phone's queue: a 409
+// conflict asking for a reload), and works from B's page.
 // Forms whose address pins the workspace (a project's share form, a library's or system's page…) are not
 // here: another workspace's id answers 404 (access-sweep*.test.ts). Real route modules, guards, MariaDB.
 // Check values: our own product rule (act only on what the page showed) — common practice for forms.
@@ -181,14 +182,15 @@ describe("a field check on a selection open to both workspaces", () => {
     expect(await s.checks()).toEqual([{ workspaceId: s.B }, { workspaceId: s.B }]);
   });
 
-  test("without the page's workspace: 400 from the form and the queue, nothing recorded", async () => {
+  test("without the page's workspace: 400 from the form; from the queue (an older page's script) a 409 conflict asking for a reload, so the phone keeps the readings; nothing recorded", async () => {
     const s = await sharedSelection();
     const form = await s.byForm({});
     expect(form.status).toBe(400);
     expect((form.body as { errors: Record<string, string> }).errors.pageWorkspaceId).toBe(OLDER_PAGE);
     const queued = await s.byQueue({});
-    expect(queued.status).toBe(400);
-    expect((queued.body as { errors: Record<string, string> }).errors.pageWorkspaceId).toBe(OLDER_PAGE);
+    expect(queued.status).toBe(409); // a 400 was shown as "refused", which the phone can only delete
+    expect(queued.body).toMatchObject({ latest: null });
+    expect((queued.body as { conflict: string }).conflict).toMatch(/older copy of this page.*Reload the page, make sure you are in that workspace, and send it again\./);
     expect(await s.checks()).toEqual([]);
   });
 

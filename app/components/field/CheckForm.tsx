@@ -12,8 +12,9 @@ import {
   FLOW_UNITS,
   gradeById,
   gradeRule,
-  MAX_PHOTOS,
   parseCheckFields,
+  photoLimitsText,
+  photoProblem,
   POWER_UNITS,
   PRESSURE_UNITS,
   TEMPERATURE_UNITS,
@@ -22,13 +23,13 @@ import {
   type FrozenSelection,
 } from "~/lib/fieldchecks";
 import { GradeTable } from "../fieldcheck";
+import { PageWorkspaceField } from "../forms";
 import { ErrorSummary } from "./ErrorSummary";
 import { GaugeInputs } from "./GaugeInputs";
 import { BIG_INPUT, ChoiceSelect, FieldError, inputId, NumberField, UnitSelect, type Errors } from "./inputs";
 import { putQueued, type QueuedCheck } from "./queue";
-import { sendWaiting } from "./sync";
+import { deviceId, sendWaiting } from "./sync";
 import { renderUnits, type UnitChoice } from "~/lib/shared/units";
-import { PageWorkspaceField } from "../forms";
 
 /** Field names as the summary at the top names them. */
 const LABELS: Record<string, string> = {
@@ -51,15 +52,9 @@ type Props = {
   units: UnitChoice;
   fields: CheckFields;
   serverErrors: Errors;
-  amends: { id: number; version: number; unreadable?: boolean } | null;
+  amends: { id: number; version: number; unreadable?: boolean; latest?: { id: number; version: number } | null } | null;
   onQueued: () => void;
 };
-
-/** A device-made id: a random UUID (secure contexts), else 128 random bits in hex. */
-function deviceId(): string {
-  if (typeof crypto.randomUUID === "function") return crypto.randomUUID();
-  return Array.from(crypto.getRandomValues(new Uint8Array(16)), (b) => b.toString(16).padStart(2, "0")).join("");
-}
 
 export function CheckForm(props: Props) {
   const { selection, owner, fields, serverErrors, amends, onQueued } = props;
@@ -91,7 +86,9 @@ export function CheckForm(props: Props) {
     const found: Record<string, string> = parsed.ok ? {} : { ...parsed.errors };
     if (!gradeById(raw.gradeId ?? "")) found.gradeId = "Choose a tolerance grade from the table.";
     const files = data.getAll("photos").filter((f): f is File => f instanceof File && f.size > 0);
-    if (files.length > MAX_PHOTOS) found.photos = `At most ${MAX_PHOTOS} photos per check.`;
+    // Each photo's size, their total and count, as the server holds them (photo-limits.ts): never queued to be refused whole.
+    const photos = photoProblem(files);
+    if (photos) found.photos = photos;
     let local: QueuedCheck["local"] | null = null;
     if (parsed.ok && !Object.keys(found).length) {
       try {
@@ -107,6 +104,7 @@ export function CheckForm(props: Props) {
     }
     setClientErrors({});
     setBusy(true);
+    const takenAt = new Date().toISOString();
     const check: QueuedCheck = {
       clientId: deviceId(),
       owner,
@@ -115,15 +113,18 @@ export function CheckForm(props: Props) {
       basedOn: selection.fingerprint,
       fields: raw,
       photos: files.map((f) => ({ name: f.name, type: f.type, blob: f })),
-      createdAt: new Date().toISOString(),
+      createdAt: takenAt,
       local,
       status: "waiting",
     };
     try {
       await putQueued(check);
     } catch {
-      // No IndexedDB (private mode, full disk): the plain form post still records it online.
+      // No IndexedDB (private mode, full disk): the plain form post still records it online, with the phone's time.
       setBusy(false);
+      const taken = document.createElement("input");
+      Object.assign(taken, { type: "hidden", name: "takenAt", value: takenAt });
+      form.append(taken);
       form.submit();
       return;
     }
@@ -163,6 +164,12 @@ export function CheckForm(props: Props) {
         <p className="panel text-sm">
           Amending check {amends.id} (version {amends.version}). The earlier version stays on record; this one becomes version {amends.version + 1}.
           {amends.unreadable ? " Its stored record cannot be read, so the form starts blank: enter the readings again." : ""}
+          {amends.latest ? (
+            <strong className="block font-semibold text-fail">
+              Version {amends.version} is no longer the latest: version {amends.latest.version} (check {amends.latest.id}) was recorded since, and only the latest version may be
+              amended. <a href={`/field/selections/${selection.id}?amend=${amends.latest.id}`}>Amend version {amends.latest.version} instead</a>.
+            </strong>
+          ) : null}
           <input type="hidden" name="amends" value={amends.id} />
         </p>
       ) : null}
@@ -259,7 +266,7 @@ export function CheckForm(props: Props) {
           <span className="label">Photos</span>
           <input id={inputId("photos")} type="file" name="photos" accept="image/jpeg,image/png,image/webp" multiple className="block min-h-12 w-full text-base" />
           <span className="text-xs text-slate-600">
-            JPEG, PNG or WebP; up to {MAX_PHOTOS} photos, 8 MB each, 12 MB in one check.
+            JPEG, PNG or WebP; {photoLimitsText()}.
             {amends ? " Photos of the earlier version are carried over." : ""}
           </span>
           <FieldError errors={errors} name="photos" />

@@ -1,9 +1,11 @@
-// Checks kept on this phone: "waiting to send" (sent as soon as there is a network), a conflict
-// (the selection changed since the phone opened it: shown, the contractor decides) or refused by
-// the server (shown with its reason). Also what this page sent, with links to the recorded checks.
+// Checks kept on this phone: "waiting to send" (sent as soon as there is a network; with the server's words
+// when it was entered in another workspace than the session's now), a conflict (the selection changed since
+// the phone opened it, or the version amended was amended meanwhile: shown, the contractor decides) or
+// refused by the server (shown with its reason; refused for its photos, it may go without them). Also what
+// this page sent, with links to the recorded checks.
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
-import { sendDespiteConflict, sendWaiting, type Sent } from "./sync";
+import { sendAsAmendmentOfLatest, sendDespiteConflict, sendWaiting, sendWithoutPhotos, type Sent } from "./sync";
 import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { fmtDateTime } from "~/lib/shared/format";
 
@@ -31,6 +33,10 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
 
 export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean }) {
   const { queued, sent, refresh, send, setSent } = props.pending;
+  const after = async (done: Sent | null) => {
+    if (done) setSent((s) => [...s, done]);
+    await refresh();
+  };
   const sys = props.unitSystem;
   if (!queued.length && !sent.length) return null;
   const waiting = queued.filter((c) => c.status === "waiting").length;
@@ -57,20 +63,25 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
               </p>
               {c.message ? <p className="font-semibold text-fail">{renderUnits(c.message, sys)}</p> : null}
-              {c.status === "conflict" ? (
-                <button
-                  type="button"
-                  className="btn-quiet min-h-12"
-                  onClick={async () => {
-                    const done = await sendDespiteConflict(c);
-                    if (done) setSent((s) => [...s, done]);
-                    await refresh();
-                  }}
-                >
-                  Record against the selection as it is now
-                </button>
+              {c.status === "conflict" && c.latest ? (
+                <>
+                  <a className="btn-quiet min-h-12" href={`/field/checks/${c.latest.id}`}>
+                    Look at version {c.latest.version}
+                  </a>
+                  <Resend label={`Record as the amendment of version ${c.latest.version} (becomes version ${c.latest.version + 1})`} send={() => sendAsAmendmentOfLatest(c)} after={after} />
+                </>
+              ) : c.status === "conflict" ? (
+                <Resend label="Record against the selection as it is now" send={() => sendDespiteConflict(c)} after={after} />
               ) : null}
-              {c.status !== "waiting" ? (
+              {c.status === "refused" && c.refusedFor === "photos" && c.photos.length ? (
+                <Resend
+                  label={`Send without the ${c.photos.length === 1 ? "photo" : `${c.photos.length} photos`}`}
+                  confirm="Send the readings without the photos? The photos are not kept on this phone once the check is recorded."
+                  send={() => sendWithoutPhotos(c)}
+                  after={after}
+                />
+              ) : null}
+              {c.status !== "waiting" || c.message ? (
                 <button
                   type="button"
                   className="btn-quiet ml-2 min-h-12"
@@ -102,5 +113,21 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
         </ul>
       ) : null}
     </section>
+  );
+}
+
+/** A button that sends one kept check again, as the contractor decided (after asking `confirm`, when given). */
+function Resend(props: { label: string; send: () => Promise<Sent | null>; after: (done: Sent | null) => Promise<void>; confirm?: string }) {
+  return (
+    <button
+      type="button"
+      className="btn-quiet min-h-12"
+      onClick={async () => {
+        if (props.confirm && !window.confirm(props.confirm)) return;
+        await props.after(await props.send());
+      }}
+    >
+      {props.label}
+    </button>
   );
 }

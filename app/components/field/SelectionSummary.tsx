@@ -1,8 +1,7 @@
 // The head of a selection's check page (what was selected) and its list of recorded checks.
-import { VerdictBadge } from "../fieldcheck";
-import type { Verdict } from "~/lib/fieldchecks";
+import { CheckWhen, VerdictBadge } from "../fieldcheck";
+import type { CheckTimes, Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
-import { fmtDateTime } from "~/lib/shared/format";
 
 export type SummarySelection = {
   id: number;
@@ -53,7 +52,7 @@ export function SelectionSummary({ selection, unitSystem }: { selection: Summary
 }
 
 /** One check of the history (page.server.ts `checkPage`): readable, or what is wrong with its stored record. */
-export type HistoryEntry = { id: number; version: number; superseded: boolean; createdAt: string } & (
+export type HistoryEntry = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes } & (
   | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string }
   | { readable: false; unreadable: string }
 );
@@ -76,7 +75,7 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
           {history.map((check) => (
             <li key={check.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
               <a href={`/field/checks/${check.id}`} className="inline-block py-2">
-                Check {check.id} v{check.version} · {fmtDateTime(check.createdAt)}
+                Check {check.id} v{check.version} · <CheckWhen times={check.times} />
                 {check.superseded ? " (amended later)" : ""}
               </a>
               {check.readable ? (

@@ -16,11 +16,17 @@ export type QueuedCheck = {
   basedOn: string;
   fields: CheckFields;
   photos: QueuedPhoto[];
+  /** The phone's clock when the check was kept (the readings were taken): sent as `takenAt`. */
   createdAt: string;
   /** What the phone worked out with the engine, shown until the server's own result is in. */
   local: { verdict: string; verdictText: string; flow: number | null; head: number };
+  /** "waiting" with a `message`: not sent for a reason that passes (the session is in another workspace). */
   status: "waiting" | "conflict" | "refused";
   message?: string;
+  /** A conflict because the amended version was amended meanwhile: the chain's latest, which may be amended instead. */
+  latest?: { id: number; version: number } | null;
+  /** Refused for its photos (too large, or not images): it may be sent again without them. */
+  refusedFor?: "photos";
 };
 
 const DB_NAME = "dutymark-field";

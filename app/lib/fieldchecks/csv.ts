@@ -4,8 +4,9 @@ import { toCsv } from "../shared/csv";
 import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
 import type { CheckResult } from "./result";
+import type { CheckTimes } from "./taken-at";
 
-type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
+type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
 
 /** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
 export type CheckHistoryForCsv = {
@@ -14,7 +15,7 @@ export type CheckHistoryForCsv = {
 };
 
 /**
- * One row per check (oldest first) after two comment lines naming the selection and the cautions. A check whose stored
+ * One row per check (oldest taken first, as `checksOf` orders them, reversed) after two comment lines naming the selection and the cautions. A check whose stored
  * record cannot be read has no row (no blank numbers a spreadsheet would sum as zeros): a comment line above the header
  * names it — id, version, date, who — and says what is wrong.
  */
@@ -30,7 +31,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],
     ...unreadable,
     [
-      "check_id", "chain_id", "version", "superseded", "recorded_at", "recorded_by", "workspace", "verdict", "grade", "flow_source",
+      "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
@@ -43,7 +44,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     if (!c.readable) continue;
     const r = c.result;
     lines.push([
-        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
+        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,

@@ -10,8 +10,6 @@ export type GaugeRef = "gauge" | "absolute";
 
 /** The grade preselected on the form (ISO 9906 grade 2B, a common acceptance grade for site work — common practice). */
 export const DEFAULT_GRADE = "2B";
-export const MAX_PHOTOS = 6;
-export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 export type Verdict = "pass" | "marginal" | "fail" | "unknown";
 
 /**

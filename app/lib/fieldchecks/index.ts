@@ -10,8 +10,6 @@ export {
   ELEVATION_UNITS,
   FLOW_UNITS,
   inputPowerW,
-  MAX_PHOTO_BYTES,
-  MAX_PHOTOS,
   parseCheckFields,
   POWER_UNITS,
   PRESSURE_UNITS,
@@ -29,6 +27,8 @@ export {
   type Verdict,
 } from "./form";
 export type { CheckResult, Pt } from "./result";
+export { MAX_CHECK_PHOTO_BYTES, MAX_PHOTO_BYTES, MAX_PHOTOS, photoLimitsText, photoProblem, tooLargeText } from "./photo-limits";
 export { crossOf, crossSentences, type CrossArm } from "./cross";
 export { powerGradeOf, powerGradeSentences, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
+export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";

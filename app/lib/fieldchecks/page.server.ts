@@ -18,7 +18,7 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
     ...blankFields(unitSystem, { suction: pipeOn("suction"), discharge: pipeOn("discharge"), temperatureC: frozen.system.input.temperatureC }),
     gradeId: DEFAULT_GRADE,
   };
-  let amends: { id: number; version: number; unreadable: boolean } | null = null;
+  let amends: { id: number; version: number; unreadable: boolean; latest: { id: number; version: number } | null } | null = null;
   const amendId = amendParam ? parseId(amendParam) : null;
   if (amendParam && amendId === null) throw data("Nothing lives at this address.", { status: 404 });
   if (amendId !== null) {
@@ -27,7 +27,9 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
     if (!amended.mayAmend) throw data("Only the workspace that recorded a check may amend it.", { status: 403 });
     // A check whose stored record cannot be read may still be amended (a new version with readings entered again): its form starts blank.
     if (amended.readable) fields = { ...amended.fields, gradeId: amended.check.grade, notes: amended.check.notes };
-    amends = { id: amended.check.id, version: amended.check.version, unreadable: !amended.readable };
+    // Only the chain's latest version may be amended (records.server.ts refuses an older one): the form says so first.
+    const last = amended.versions[amended.versions.length - 1];
+    amends = { id: amended.check.id, version: amended.check.version, unreadable: !amended.readable, latest: amended.latest || !last ? null : { id: last.id, version: last.version } };
   }
   const speedRatio = frozen.adjustment.method === "speed" ? (frozen.result?.ratio ?? 1) : 1;
   return {
@@ -47,7 +49,7 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
       frozen: forTheField(frozen),
     },
     history: history.checks.map((check) => {
-      const base = { id: check.id, version: check.version, superseded: check.superseded, createdAt: check.createdAt, byName: check.byName, byWorkspace: check.byWorkspace };
+      const base = { id: check.id, version: check.version, superseded: check.superseded, createdAt: check.createdAt, times: check.times, byName: check.byName, byWorkspace: check.byWorkspace };
       if (!check.readable) return { ...base, readable: false as const, unreadable: unreadableCheckText(check) };
       return {
         ...base,

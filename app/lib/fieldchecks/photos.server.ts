@@ -4,7 +4,7 @@ import { and, eq } from "drizzle-orm";
 import { data } from "react-router";
 import { db } from "@db/client.server";
 import { fieldCheckPhotos } from "@db/schema";
-import { MAX_PHOTO_BYTES, MAX_PHOTOS } from "./form";
+import { photoProblem } from "./photo-limits";
 import { getFieldCheck } from "./records.server";
 import type { Viewer } from "../libraries";
 
@@ -21,13 +21,18 @@ export function sniffImage(bytes: Uint8Array): "image/jpeg" | "image/png" | "ima
 
 export type PhotoIn = { filename: string; contentType: string; bytes: Buffer };
 
-/** Checks uploaded files: type by magic bytes, size, count. Empty file inputs are skipped. */
+/**
+ * Checks uploaded files: count, size each and together (photo-limits.ts, as the phone did before queueing), then
+ * type by magic bytes. Empty file inputs are skipped.
+ */
 export async function readPhotos(files: FormDataEntryValue[], already = 0): Promise<PhotoIn[]> {
+  const chosen = files.filter((f): f is File => f instanceof File && !(f.size === 0 && !f.name));
+  const empty = chosen.find((f) => f.size === 0);
+  if (empty) throw new PhotoRejected(`${empty.name} is empty.`);
+  const problem = photoProblem(chosen, already);
+  if (problem) throw new PhotoRejected(problem);
   const out: PhotoIn[] = [];
-  for (const f of files) {
-    if (!(f instanceof File) || (f.size === 0 && !f.name)) continue;
-    if (f.size === 0) throw new PhotoRejected(`${f.name} is empty.`);
-    if (f.size > MAX_PHOTO_BYTES) throw new PhotoRejected(`${f.name} is ${(f.size / 1048576).toFixed(1)} MB; each photo may be at most 8 MB.`);
+  for (const f of chosen) {
     const bytes = Buffer.from(await f.arrayBuffer());
     const type = sniffImage(bytes);
     if (!type) throw new PhotoRejected(`${f.name} is not a JPEG, PNG or WebP image.`);
@@ -35,7 +40,6 @@ export async function readPhotos(files: FormDataEntryValue[], already = 0): Prom
     const name = (f.name.split(/[\\/]/).pop() ?? "photo").replace(/[\u0000-\u001f\u007f"]/g, "").slice(0, 200) || "photo";
     out.push({ filename: name, contentType: type, bytes });
   }
-  if (out.length + already > MAX_PHOTOS) throw new PhotoRejected(`At most ${MAX_PHOTOS} photos per check${already ? ` (${already} carried from the earlier version)` : ""}.`);
   return out;
 }
 

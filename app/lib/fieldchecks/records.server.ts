@@ -13,17 +13,15 @@ import { db, withTransaction } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
 import { frozenOf } from "../projects/selections.server";
 import type { Viewer } from "../libraries";
-import { sendMail } from "../mail/outbox.server";
-import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
-import { appUrl } from "../auth/accounts.server";
-import { deliveredSentence, evaluateCheck } from "./evaluate";
-import { renderUnits } from "../shared/units";
-import { readStoredUnits } from "../auth/stored-units";
-import { MAX_PHOTOS, type CheckFields, type Readings } from "./form";
-import type { CheckResult } from "./result";
+import { evaluateCheck } from "./evaluate";
+import type { CheckFields, Readings } from "./form";
 import { readStoredCheck } from "./stored-check";
 import { MAX_PROBLEMS_LISTED } from "../projects/stored-doc";
 import { PhotoRejected, type PhotoIn } from "./photos.server";
+import { photoProblem } from "./photo-limits";
+import { checkTimes } from "./taken-at";
+import { notifyEngineer } from "./notify.server";
+import { fmtUtc } from "../shared/format";
 
 const notFound = (what: string) => data(`No such ${what} open to this workspace.`, { status: 404 });
 
@@ -59,6 +57,8 @@ export async function fieldSelectionRecord(viewer: Viewer, selectionId: number) 
     own: row.s.workspaceId === viewer.workspace.id,
     createdBy: row.s.createdBy,
     projectCreatedBy: row.projectCreatedBy,
+    /** When the selection was made: readings the phone's clock dates before it are flagged (taken-at.ts). */
+    createdAt: row.s.createdAt,
   };
 }
 
@@ -147,6 +147,7 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
     photos,
     versions: chain.map((c) => ({ ...c, createdAt: c.createdAt.toISOString() })),
     latest: chain.length ? chain[chain.length - 1].id === row.id : true,
+    times: checkTimes(row.takenAt, row.createdAt, sel.createdAt),
   };
 }
 
@@ -163,19 +164,21 @@ export async function checkRecords(viewer: Viewer, selectionId: number) {
 }
 
 /**
- * The checks recorded against a selection, newest first, each marked when a later version of it exists. A check whose
+ * The checks recorded against a selection, newest first by the time their readings were taken (the phone's clock where
+ * it was sent, else the server's when recorded), each with both times (taken-at.ts) and marked when a later version exists. A check whose
  * stored readings or result fail their schemas (stored-check.ts) is listed as unreadable (`readable: false`: who, when
  * and what is wrong, no numbers) and the others as before: one damaged row never takes the list down.
  * No access rule: callers pass a selection they have already opened for the viewer.
  */
 export async function checksOf(selectionId: number) {
   const rows = await db()
-    .select({ c: fieldChecks, byName: users.name, byWorkspace: workspaces.name })
+    .select({ c: fieldChecks, byName: users.name, byWorkspace: workspaces.name, selectionMade: selections.createdAt })
     .from(fieldChecks)
+    .innerJoin(selections, eq(selections.id, fieldChecks.selectionId))
     .leftJoin(users, eq(users.id, fieldChecks.createdBy))
     .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
     .where(eq(fieldChecks.selectionId, selectionId))
-    .orderBy(desc(fieldChecks.id));
+    .orderBy(desc(sql`COALESCE(${fieldChecks.takenAt}, ${fieldChecks.createdAt})`), desc(fieldChecks.id));
   const latestOfChain = new Map<number, number>();
   for (const r of rows) {
     const chain = r.c.chainId ?? r.c.id;
@@ -191,6 +194,7 @@ export async function checksOf(selectionId: number) {
       grade: r.c.grade,
       notes: r.c.notes,
       createdAt: r.c.createdAt.toISOString(),
+      times: checkTimes(r.c.takenAt, r.c.createdAt, r.selectionMade),
       byName: r.byName ?? "",
       byWorkspace: r.byWorkspace,
     };
@@ -216,13 +220,19 @@ export type NewCheck = {
   clientId?: string | null;
   /** The selection's fingerprint the device worked against; a different one now is a conflict. */
   basedOn?: string | null;
+  /** The phone's clock when the readings were taken (kept beside the server's time of recording); null when not sent. */
+  takenAt?: Date | null;
 };
 
-/** The selection changed (or its check chain moved on) since the device opened it: shown, never merged. */
+/**
+ * The selection changed since the device opened it (`current`: its fingerprint now), or the version being amended was
+ * amended meanwhile (`latest`: the chain's latest version, which the user may amend instead): shown, never merged.
+ */
 export class CheckConflict extends Error {
   constructor(
     message: string,
     readonly current: string,
+    readonly latest: { id: number; version: number } | null = null,
   ) {
     super(message);
   }
@@ -232,14 +242,20 @@ export class CheckConflict extends Error {
 export const CLIENT_ID = /^[A-Za-z0-9_-]{8,64}$/;
 
 /**
- * The check already recorded under this device id, if any (same workspace and selection only). A retry needs only its
- * id: its stored documents are not read here, so a damaged one (its own page says so) never turns the phone's retry into
- * a 500 that the queue would send again and again.
+ * The check already recorded under this device id, if any: the same user's, in the same workspace and selection only.
+ * Anyone else's is a 409 (`code: "client-id-taken"`, the phone sends again under a new id) that never names that check:
+ * answered as a duplicate, the other phone would delete readings that were never recorded. A retry needs only its id:
+ * its stored documents are not read here, so a damaged one (its own page says so) never turns the phone's retry into a
+ * 500 that the queue would send again and again.
  */
 async function checkByClientId(viewer: Viewer, selectionId: number, clientId: string) {
-  const [row] = await db().select({ id: fieldChecks.id, workspaceId: fieldChecks.workspaceId, selectionId: fieldChecks.selectionId }).from(fieldChecks).where(eq(fieldChecks.clientId, clientId));
+  const [row] = await db()
+    .select({ id: fieldChecks.id, workspaceId: fieldChecks.workspaceId, selectionId: fieldChecks.selectionId, createdBy: fieldChecks.createdBy })
+    .from(fieldChecks)
+    .where(eq(fieldChecks.clientId, clientId));
   if (!row) return null;
-  if (row.workspaceId !== viewer.workspace.id || row.selectionId !== selectionId) throw data("That check id is already used by another check.", { status: 409 });
+  if (row.workspaceId !== viewer.workspace.id || row.selectionId !== selectionId || row.createdBy !== viewer.userId)
+    throw data({ detail: "That check id is already used by another check: this one was not recorded under it. Send it again under a new id.", code: "client-id-taken" }, { status: 409 });
   return { id: row.id, result: null, mail: null, duplicate: true as const };
 }
 
@@ -286,12 +302,22 @@ export async function recordFieldCheck(
     let carried: (typeof fieldCheckPhotos.$inferSelect)[] = [];
     if (amended) {
       chainId = amended.chainId ?? amended.id;
-      // Lock the chain's first version so two amendments cannot take the same number.
+      // Lock the chain's first version so two amendments cannot take the same number, then read its latest (locking: the
+      // newest committed row). Only the latest may be amended: a new version built from an older one would drop the
+      // readings and photos of the versions after it from the chain's latest record (a phone that opened it offline).
       await tx.select({ id: fieldChecks.id }).from(fieldChecks).where(eq(fieldChecks.id, chainId)).for("update");
-      const [{ v }] = await tx.select({ v: sql<number>`MAX(${fieldChecks.version})` }).from(fieldChecks).where(eq(fieldChecks.chainId, chainId));
-      version = Number(v ?? 1) + 1;
+      const [latest] = await tx
+        .select({ id: fieldChecks.id, version: fieldChecks.version, createdAt: fieldChecks.createdAt })
+        .from(fieldChecks)
+        .where(eq(fieldChecks.chainId, chainId))
+        .orderBy(desc(fieldChecks.version))
+        .limit(1)
+        .for("update");
+      if (latest && latest.id !== amended.id) throw amendedMeanwhile(amended, latest);
+      version = (latest?.version ?? amended.version) + 1;
       carried = await tx.select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, amended.id));
-      if (carried.length + photos.length > MAX_PHOTOS) throw new PhotoRejected(`At most ${MAX_PHOTOS} photos per check (${carried.length} carried from the earlier version).`);
+      const tooMany = photoProblem(photos.map((p) => ({ name: p.filename, size: p.bytes.length })), carried.length);
+      if (tooMany) throw new PhotoRejected(tooMany);
     }
     const [{ id }] = await tx
       .insert(fieldChecks)
@@ -307,6 +333,7 @@ export async function recordFieldCheck(
         grade: result.grade.id,
         notes: input.notes,
         clientId,
+        takenAt: input.takenAt ?? null,
       })
       .$returningId();
     if (!chainId) await tx.update(fieldChecks).set({ chainId: id }).where(eq(fieldChecks.id, id));
@@ -324,52 +351,21 @@ export async function recordFieldCheck(
     if (winner) return winner;
     throw new Error("duplicate device id but no check found");
   }
-  const mail = opts.notify === false ? null : await notifyEngineer(viewer, sel, id, result, amended ? "amended" : "new");
+  let mail = null;
+  if (opts.notify !== false) {
+    const [{ createdAt }] = await db().select({ createdAt: fieldChecks.createdAt }).from(fieldChecks).where(eq(fieldChecks.id, id));
+    mail = await notifyEngineer(viewer, sel, id, result, amended ? "amended" : "new", checkTimes(input.takenAt ?? null, createdAt, sel.createdAt));
+  }
   return { id, result, mail, duplicate: false as const };
 }
 
-async function notifyEngineer(viewer: Viewer, sel: Awaited<ReturnType<typeof fieldSelection>>, checkId: number, r: CheckResult, kind: "new" | "amended") {
-  const userId = sel.createdBy ?? sel.projectCreatedBy;
-  if (!userId) return null;
-  const [to] = await db().select({ email: users.email, name: users.name, unitSystem: users.unitSystem, units: users.units }).from(users).where(eq(users.id, userId));
-  if (!to) return null;
-  const [me] = await db().select({ name: users.name, email: users.email }).from(users).where(eq(users.id, viewer.userId));
-  const checkedBy = `${me?.name || me?.email || "A member"} (${viewer.workspace.name})`;
-  const link = `${appUrl()}/field/checks/${checkId}`;
-  const units = readStoredUnits(to.unitSystem, to.units).units; // the mail speaks the engineer's units (the defaults when they cannot be read, as the pages)
-  const title = renderUnits(sel.title, units);
-  const detail = `${kind === "amended" ? "This is an amended version of an earlier check. " : ""}${renderUnits(deliveredSentence(r), units)}`;
-  let msg;
-  if (r.verdict === "unknown") {
-    // The shared template has words for pass / marginal / fail only; without a flow meter there is no verdict.
-    const selection = oneLine(title);
-    const project = oneLine(sel.projectName);
-    const text = [
-      to.name ? `Hello ${oneLine(to.name)},` : "Hello,",
-      "",
-      `${oneLine(checkedBy)} recorded a field check on the selection “${selection}” in the project “${project}”.`,
-      r.engine.flowSource !== "measured"
-        ? "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve."
-        : "No tolerance verdict: the measured speed is too far from the curve's to judge against it (the check says why).",
-      detail,
-      "",
-      `Open the field check: ${link}`,
-      "",
-      "Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer.",
-    ].join("\n");
-    const html = text
-      .split("\n")
-      .map((l) => (l.startsWith("Open the field check: ") ? `<p><a href="${escapeHtml(link)}">Open the field check</a></p>` : l ? `<p>${escapeHtml(l)}</p>` : ""))
-      .join("");
-    msg = { subject: `Field check on ${selection} (${project}): no tolerance verdict`, text, html };
-  } else {
-    msg = fieldCheckMail({ engineerName: to.name, checkedBy, projectName: sel.projectName, selectionName: title, verdict: r.verdict, detail, link });
-  }
-  try {
-    return await sendMail({ to: to.email, ...msg });
-  } catch (e) {
-    // The check is recorded; a mail that cannot even be queued is logged, not fatal.
-    console.error(`[fieldchecks] notice for check ${checkId} not queued: ${e instanceof Error ? e.message : e}`);
-    return null;
-  }
+/** The amended version is no longer the chain's latest: the conflict, naming both versions, with the latest to amend instead. */
+function amendedMeanwhile(amended: CheckRow, latest: { id: number; version: number; createdAt: Date }): CheckConflict {
+  return new CheckConflict(
+    `Not recorded: check ${amended.id} (version ${amended.version}) was amended meanwhile: version ${latest.version} (check ${latest.id}), recorded ${fmtUtc(latest.createdAt)}. ` +
+      `Recorded as an amendment of version ${amended.version}, these readings would have replaced version ${latest.version}'s, and its photos, as the latest record. ` +
+      `Look at version ${latest.version}; if these readings still apply, record them as its amendment (version ${latest.version + 1}).`,
+    "",
+    { id: latest.id, version: latest.version },
+  );
 }

@@ -1,4 +1,4 @@
-// The field checks of one selection, for the engineer's selection page: who recorded each and when,
+// The field checks of one selection, for the engineer's selection page: who recorded each, when it was taken and recorded,
 // what the pump delivered, and the verdict with the tolerance rule it was judged by. Only for the
 // selection's own workspace (contractors of a shared project see them on the field pages instead):
 // it takes the selection as `getSelection` opened it for the viewer (limited to their workspace), so the
@@ -11,7 +11,7 @@ import { unreadableCheckText } from "./stored-check";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
   return (await checksOf(selection.id)).map((c) => {
-    const base = { id: c.id, version: c.version, superseded: c.superseded, createdAt: c.createdAt, byName: c.byName, byWorkspace: c.byWorkspace };
+    const base = { id: c.id, version: c.version, superseded: c.superseded, createdAt: c.createdAt, times: c.times, byName: c.byName, byWorkspace: c.byWorkspace };
     if (!c.readable) return { ...base, readable: false as const, unreadable: unreadableCheckText(c) };
     return {
       ...base,

@@ -7,14 +7,15 @@ import { gradeById } from "./evaluate";
 import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";
 import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
+import { readTakenAt } from "./taken-at";
 
 /** Form fields that say how to record, not what was read (never stored among the readings). */
-const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos", "pageWorkspaceId"] as const;
+const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos", "takenAt", "pageWorkspaceId"] as const;
 
 export type SubmitOutcome =
   | { ok: true; id: number; duplicate: boolean }
   | { ok: false; status: 400 | 422; errors: Record<string, string>; fields: CheckFields }
-  | { ok: false; status: 409; conflict: string; fields: CheckFields };
+  | { ok: false; status: 409; conflict: string; latest: { id: number; version: number } | null; fields: CheckFields };
 
 /** Validates the form, reads the photos and records the check (once per device id). */
 export async function submitCheckForm(viewer: Viewer, selectionId: number, form: FormData): Promise<SubmitOutcome> {
@@ -31,6 +32,8 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
   const clientId = raw.clientId ? raw.clientId : null;
   if (clientId !== null && !CLIENT_ID.test(clientId)) errors._form = "The check id made on the device is not valid.";
   const amends = raw.amends ? formId(form, "amends") : null;
+  const taken = readTakenAt(raw.takenAt);
+  if (!taken.ok) errors._form = taken.message;
   if (!parsed.ok || Object.keys(errors).length) return { ok: false, status: 400, errors, fields };
 
   const readingFields: CheckFields = { ...fields };
@@ -40,7 +43,7 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
     const recorded = await recordFieldCheck(
       viewer,
       selectionId,
-      { readings: parsed.readings, fields: readingFields, notes: parsed.notes, gradeId: gradeId!, amends, clientId, basedOn: raw.basedOn || null },
+      { readings: parsed.readings, fields: readingFields, notes: parsed.notes, gradeId: gradeId!, amends, clientId, basedOn: raw.basedOn || null, takenAt: taken.ok ? taken.takenAt : null },
       photos,
       { selection },
     );
@@ -48,7 +51,7 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
   } catch (e) {
     if (e instanceof PhotoRejected) return { ok: false, status: 422, errors: { photos: e.message }, fields };
     if (e instanceof EngineInputError) return { ok: false, status: 422, errors: { _form: `These readings cannot be worked out: ${e.message}.` }, fields };
-    if (e instanceof CheckConflict) return { ok: false, status: 409, conflict: e.message, fields };
+    if (e instanceof CheckConflict) return { ok: false, status: 409, conflict: e.message, latest: e.latest, fields };
     throw e;
   }
 }

@@ -3,11 +3,17 @@
 // middleware (app/root.tsx) refuses a declared Content-Length over the same limits before any
 // action reads a body. Types for the TypeScript side: body-limits.d.mts.
 
+/**
+ * A field check with its photos, both ways it is posted (the page's form to …/photos, the phone's queue to …/checks).
+ * The photos a check may carry together are this less room for the form's fields (fieldchecks/photo-limits.ts).
+ */
+export const FIELD_CHECK_BODY_BYTES = 12 * 1024 * 1024;
+
 /** Route classes, first match wins; anything else gets DEFAULT_BODY_LIMIT. */
 export const BODY_LIMITS = Object.freeze([
   Object.freeze({ name: "upload", pattern: /\/upload$/, bytes: 25 * 1024 * 1024 }), // CSV uploads (20 MB file + multipart framing)
-  Object.freeze({ name: "photos", pattern: /\/photos$/, bytes: 12 * 1024 * 1024 }), // field-check photos
-  Object.freeze({ name: "field-check-sync", pattern: /^\/field\/selections\/\d+\/checks$/, bytes: 12 * 1024 * 1024 }), // a check queued on a phone, with its photos
+  Object.freeze({ name: "photos", pattern: /\/photos$/, bytes: FIELD_CHECK_BODY_BYTES }), // field-check photos
+  Object.freeze({ name: "field-check-sync", pattern: /^\/field\/selections\/\d+\/checks$/, bytes: FIELD_CHECK_BODY_BYTES }), // a check queued on a phone, with its photos
   Object.freeze({ name: "stripe-webhook", pattern: /^\/api\/stripe\/webhook$/, bytes: 512 * 1024 }),
 ]);
 

@@ -1,0 +1,1 @@
+ALTER TABLE `field_checks` ADD `taken_at` datetime(3);
