@@ -1,5 +1,5 @@
 import type { Route } from "./+types/field.selections.$id.checks";
-import { pageWorkspaceRefusal, requireMember } from "~/lib/auth/guards.server";
+import { pageWorkspaceRefusal, queuedCheckWaits, requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readFormSafe, readId } from "~/lib/shared/forms.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
@@ -26,7 +26,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const selectionId = readId(params.id);
     const form = await readFormSafe(request);
     const refused = pageWorkspaceRefusal(member, form.get("pageWorkspaceId"));
-    if (refused?.status === 409) return Response.json({ staleWorkspace: refused.errors._form }, { status: 409 });
+    if (refused?.status === 409) return Response.json({ staleWorkspace: queuedCheckWaits(member, Number(form.get("pageWorkspaceId"))) }, { status: 409 });
     if (refused) return Response.json({ conflict: OLDER_SCRIPT, latest: null }, { status: 409 });
     const outcome = await submitCheckForm(viewerOf(member), selectionId, form);
     if (outcome.ok) return Response.json({ id: outcome.id, duplicate: outcome.duplicate, url: `/field/checks/${outcome.id}` }, { status: outcome.duplicate ? 200 : 201 });

@@ -140,6 +140,17 @@ export function staleWorkspacePage(m: Member, pageWorkspaceId: number): string |
 }
 
 /**
+ * The phone's queue (not a page to reload): a check entered in another workspace than the session's now waits on the
+ * phone until the session is back there; one entered in a workspace the user has left cannot be recorded at all.
+ */
+export function queuedCheckWaits(m: Member, pageWorkspaceId: number): string {
+  const entered = m.workspaces.find((w) => w.id === pageWorkspaceId);
+  return entered
+    ? `Not sent yet: this check was entered in the workspace “${entered.name}”, and you are now working in “${m.workspace.name}”. Switch back to “${entered.name}” to send it; it stays on this phone until then.`
+    : `Not sent: this check was entered in a workspace you are no longer in, so it cannot be recorded there. Its readings stay on this phone: copy them into a new check, or delete it.`;
+}
+
+/**
  * For an action that reads its body as FormData (the field-check form and the phone's queue): the page's
  * workspace as posted (`raw`, the form's `pageWorkspaceId`) refused — 400 when missing (a page from before the
  * field), 409 when the session has moved to another workspace (`staleWorkspacePage`) — or null to go on.
