@@ -5,7 +5,7 @@
 // this page sent, with links to the recorded checks.
 import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
-import { sendAsAmendmentOfLatest, sendDespiteConflict, sendWaiting, sendWithoutPhotos, type Sent } from "./sync";
+import { addSent, sendAsAmendmentOfLatest, sendDespiteConflict, sendWaiting, sendWithoutPhotos, type Sent } from "./sync";
 import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { fmtDateTime } from "~/lib/shared/format";
 
@@ -19,7 +19,7 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
   }, [owner, selectionId]);
   const send = useCallback(async () => {
     const done = await sendWaiting(owner).catch(() => [] as Sent[]);
-    if (done.length) setSent((s) => [...s, ...done]);
+    if (done.length) setSent((s) => addSent(s, done));
     await refresh();
   }, [owner, refresh]);
   useEffect(() => {
@@ -34,7 +34,7 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
 export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean }) {
   const { queued, sent, refresh, send, setSent } = props.pending;
   const after = async (done: Sent | null) => {
-    if (done) setSent((s) => [...s, done]);
+    if (done) setSent((s) => addSent(s, [done]));
     await refresh();
   };
   const sys = props.unitSystem;

@@ -15,7 +15,7 @@ vi.mock("./queue", () => ({
   deleteQueued: async (id: string) => void store.delete(id),
   allQueued: async () => [...store.values()],
 }));
-const { afterAnswer, checkBody, ownerWorkspaceId, sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
+const { addSent, afterAnswer, checkBody, ownerWorkspaceId, sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
 
 type Sent = { url: string; body: FormData };
 let sent: Sent[] = [];
@@ -172,5 +172,16 @@ describe("what the queue does with the answer", () => {
       message: "gauges.jpg is not a JPEG, PNG or WebP image.",
       refusedFor: "photos",
     });
+  });
+});
+
+describe("the sent list", () => {
+  test("callers of one run (page load, network back) list each recorded check once", async () => {
+    const a = { clientId: "c-1", id: 34, duplicate: false };
+    const b = { clientId: "c-2", id: 35, duplicate: false };
+    let list = addSent([], [a, b]);
+    list = addSent(list, [a, b]); // a second caller of the same run
+    list = addSent(list, [{ ...a, duplicate: true }]); // a retry answered "duplicate"
+    expect(list).toEqual([a, b]);
   });
 });

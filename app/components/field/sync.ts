@@ -102,6 +102,16 @@ async function sendOne(check: QueuedCheck, opts: { ignoreConflict?: boolean; reI
   return null;
 }
 
+/**
+ * The "sent from this phone" list with `done` added once: every caller of a run (the page's load, the network coming
+ * back, a button) gets the same run's answer, so the same check must not be listed once per caller.
+ */
+export function addSent(list: readonly Sent[], done: readonly Sent[]): Sent[] {
+  const out = [...list];
+  for (const d of done) if (!out.some((x) => x.clientId === d.clientId || x.id === d.id)) out.push(d);
+  return out;
+}
+
 let running: Promise<Sent[]> | null = null;
 
 /** Sends every waiting check of `owner` (one run at a time); answers what the server recorded. */
