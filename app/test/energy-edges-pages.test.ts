@@ -14,22 +14,14 @@ import { createLibrary, listModels } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, selectCandidate, systemWorkbench } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, systemSpec, type SystemInput } from "~/lib/projects/hydraulics";
 import { DEFAULT_ENERGY_SETTINGS } from "~/lib/projects/energy";
-import { importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
+import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { call, makeMember } from "./harness";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import SelectionReport, * as selectionPage from "~/routes/selections.$id";
 import * as selectionCsv from "~/routes/selections.$id.export-csv";
+import { LOWHEAD_CSV } from "./lowhead-pump";
 
-// H = 5.5 − 0.0008 · Q² (m, Q in m³/h), efficiency peaking at 75 % near 36 m³/h (invented).
-const CSV = [
-  "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m",
-  ...[0, 10, 20, 30, 36, 45, 60].map((q) => {
-    const h = 5.5 - 0.0008 * q * q;
-    const eta = q === 0 ? 0 : 0.75 * (1 - ((q / 60 - 0.6) / 0.6) ** 2);
-    const kw = q === 0 ? 0.06 : (998.2 * 9.80665 * q * M3H * h) / eta / 1000 + 0.03;
-    return `Lowhead 40,in-line,DN40,1450,120,${q},${h.toFixed(4)},${(eta * 100).toFixed(2)},${kw.toFixed(5)},2`;
-  }),
-].join("\n");
+const CSV = LOWHEAD_CSV; // app/test/lowhead-pump.ts (invented)
 
 // The default runs with the outlet 0.5 m below the source: the system needs about 1 m at the duty flow and less than 0
 // at a quarter of it (checked below from the system curve, not from the code under test).

@@ -13,13 +13,14 @@ import { analyseStored, createLibrary, getUpload, importUpload, listModels, type
 import { addCandidate, createProject, createSystem, getSelection, searchForSystem, selectCandidate } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
-import { boosterInput, demoLibrary, importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
+import { boosterInput, demoLibrary, importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { storePicture, storeTracedCsv } from "~/lib/tracer/pictures.server";
 import { TRACE_CAUTION, tracedOrigin } from "~/lib/tracer/sniff";
 import { chartPdf } from "~/lib/tracer/test-chart";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import { makeMember, type TestMember } from "./harness";
 import { csvFigures, figureCell, selectionPages, textOf } from "./selection-pages";
+import { LOWHEAD_CSV } from "./lowhead-pump";
 
 afterAll(() => closeDb());
 
@@ -122,16 +123,7 @@ describe("Methods and assumptions follow the liquid and the ANSI/HI 9.6.7 status
 });
 
 describe("a traced curve's source and caution are frozen with the selection and shown", () => {
-  // H = 5.5 − 0.0008 · Q² (m, Q in m³/h), efficiency peaking at 75 % near 36 m³/h (invented).
-  const CSV = [
-    "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m",
-    ...[0, 10, 20, 30, 36, 45, 60].map((q) => {
-      const h = 5.5 - 0.0008 * q * q;
-      const eta = q === 0 ? 0 : 0.75 * (1 - ((q / 60 - 0.6) / 0.6) ** 2);
-      const kw = q === 0 ? 0.06 : (998.2 * 9.80665 * q * M3H * h) / eta / 1000 + 0.03;
-      return `Lowhead 40,in-line,DN40,1450,120,${q},${h.toFixed(4)},${(eta * 100).toFixed(2)},${kw.toFixed(5)},2`;
-    }),
-  ].join("\n");
+  const CSV = LOWHEAD_CSV; // app/test/lowhead-pump.ts (invented)
   const lowHead: SystemInput = { ...defaultSystemInput(), staticLow: 2, staticHigh: 2 };
 
   test("report (curve data and methods) and CSV (caution line and figures) name the source and the caution; an untraced one says none", async () => {
