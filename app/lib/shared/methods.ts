@@ -149,6 +149,8 @@ export function unknownMethodAnswer(routes: Record<string, RouteEntry | undefine
  */
 export function pageMethodRefusal(routes: Record<string, RouteEntry | undefined>, method: string, pathname: string): { status: 405; allow: string; detail: string } | null {
   const m = method.toUpperCase();
+  // GET, HEAD and OPTIONS always go on (methodVerdict): no route matching on the requests nearly every visit makes.
+  if (m === "GET" || m === "HEAD" || m === "OPTIONS") return null;
   const path = pathname === "/_root.data" ? "/" : pathname.replace(/\.data$/, "");
   if (path.startsWith("/api/") || !ROUTER_METHODS.has(m)) return null;
   const { verdict, allow } = methodVerdict(m, patternOf(routes, path));
