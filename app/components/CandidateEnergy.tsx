@@ -139,10 +139,11 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                     <td className="pr-2">{fmtNum(s.flowFraction * 100, 0)} %</td>
                     <td className="pr-2">{fmtFlow(unitSystem, s.flow)}</td>
                     <td className="pr-2">{fmtHead(unitSystem, s.head)}</td>
-                    {s.status === "ok" ? (
+                    {s.status === "ok" || s.status === "throttled-at-min-on-curve-speed" ? (
                       <>
-                        {/* The speed as the engine states it: "full speed, throttled", "84.2 % speed", "held at the lowest speed 30 %, throttled". */}
-                        <td className="pr-2">{s.message || fmtPct(s.speedRatio, 0)}</td>
+                        {/* The speed as the engine states it: "full speed, throttled", "84.2 % speed", "held at the lowest speed 30 %, throttled";
+                            held at the lowest on-curve speed: the speed here, the engine's rule and numbers on the row below. */}
+                        <td className="pr-2">{s.status === "ok" ? s.message || fmtPct(s.speedRatio, 0) : `${fmtPct(s.speedRatio)} speed, throttled`}</td>
                         <td className="pr-2">{fmtPct(s.efficiency)}</td>
                         <td className="pr-2">{fmtPower(unitSystem, s.shaftPower)}</td>
                         <td className="pr-2">{fmtPct(s.motorEfficiency)}</td>
@@ -162,6 +163,14 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                     <td className="pr-2">{cols.hours.rows[i]}</td>
                     <td className="pr-2">{s.energyKWh == null ? "—" : `${cols.energy.rows[i]} kWh`}</td>
                   </tr>
+                  {s.status === "throttled-at-min-on-curve-speed" && (
+                    <tr>
+                      <td />
+                      <td colSpan={10} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
+                        {stepVerdict(s)}: {s.message}
+                      </td>
+                    </tr>
+                  )}
                   {stepWarnings(e.cycle!, i).map((w) => (
                     <tr key={w}>
                       <td />

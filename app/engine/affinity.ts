@@ -118,6 +118,11 @@ export interface RatioSolution {
   efficiency: number | null;
   message: string;
   warnings: EngineWarning[];
+  /**
+   * With `outside-curve`: where the duty's flow leaves the curve (its `end` or `start`), the ratio at which it reaches it
+   * and the head the scaled curve gives there, m. A drive may run the pump at that end's ratio, throttled (dutyCycle.ts).
+   */
+  edge?: CurveEdge;
 }
 
 /** Relative slack on a curve's flow range for rounding in Qd/s^k (dimensionless; common practice: a few ulps). */
@@ -136,7 +141,7 @@ function evalAtEnds(c: MonotoneCubic, t: number): number | null {
 }
 
 /** Where the duty's flow leaves the curve when no ratio meets it: the ratio at that end and the head there (m). */
-interface CurveEdge {
+export interface CurveEdge {
   at: "end" | "start";
   ratio: number;
   head: number;
@@ -195,8 +200,8 @@ function checkDuty(duty: { flow: number; head: number }) {
 type NoRatio = Exclude<RatioSolution["status"], "ok">;
 
 /** The answer when no ratio in the limits meets the duty, with the message for its reason. */
-function noRatio(status: NoRatio, message: string): RatioSolution {
-  return { status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [], message };
+function noRatio(status: NoRatio, message: string, edge?: CurveEdge | null): RatioSolution {
+  return { status, ratio: null, speed: null, diameter: null, efficiency: null, warnings: [], message, ...(edge ? { edge } : {}) };
 }
 
 /**
@@ -232,7 +237,7 @@ export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: nu
       "duty-above-curve": "duty head is above the curve even at the highest allowed speed",
       "outside-curve": "duty flow falls outside the curve at every allowed speed",
       "duty-below-limit": "duty needs a speed below the lowest allowed",
-    }[r.status]);
+    }[r.status], r.status === "outside-curve" ? r.edge : null);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);
@@ -272,7 +277,7 @@ export function trimForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: num
       "duty-above-curve": "duty head is above the full-diameter curve: trimming cannot help",
       "outside-curve": "duty flow falls outside the curve at every trim",
       "duty-below-limit": "duty needs a trim beyond the searched range",
-    }[r.status]);
+    }[r.status], r.status === "outside-curve" ? r.edge : null);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,

@@ -15,6 +15,14 @@
  *   with H_set = the system's head at the design flow. Speed by the affinity laws (Q ∝ N, H ∝ N²,
  *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %. A step
  *   that would need less than the lowest speed runs at the lowest speed, throttled (common practice).
+ *   A step whose duty point lies past the curve's end at every speed that keeps its flow on the curve (the pump gives more
+ *   head than asked where the flow first reaches the curve's last published point, and below that speed the flow is off
+ *   the curve, where the curve says nothing) runs at that lowest on-curve speed, N = Q / Q_end, and a valve (or the
+ *   system's balancing) takes the surplus head: met, status `throttled-at-min-on-curve-speed`, counted; its energy is at
+ *   that speed and flow with the pump's head there (N² · H(Q_end)), not the system's. Common practice for a
+ *   drive-controlled pump (from memory of pump makers' drive guidance: a drive is not run to a speed where the duty leaves
+ *   the published curve; the surplus is throttled). It is `beyond-curve` (not met) only where no speed within the drive's
+ *   limits puts the flow on the curve (Q above the curve's end at full speed) or the duty's head is above it.
  *   Where the control curve asks less head than the system needs at the step's flow (an open system whose
  *   static head lies above 0.5 · H_set under proportional pressure, or any step above the design flow), the
  *   step is NOT met (status `control-below-system`): a differential-pressure controller holds the pump on its
@@ -105,10 +113,14 @@ export const DRIVE_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.
 export const PART_LOAD_SOURCE = "motor and drive part-load factors: common practice assumption (from memory of typical IE3 motor and PWM drive part-load data; check the makers' data)";
 
 /** `gravity-flow`: no pump head needed at the step (system head ≤ 0), pump taken as stopped, 0 kWh; met like `ok`. */
-export type StepStatus = "ok" | "gravity-flow" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
+/** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
+export type StepStatus = "ok" | "gravity-flow" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
-/** Steps whose energy is in the total: computed (`ok`) or no pumping needed (`gravity-flow`, 0 kWh); the others leave the cycle incomplete. */
-export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow"];
+/**
+ * Steps whose energy is in the total: computed (`ok`, `throttled-at-min-on-curve-speed`) or no pumping needed
+ * (`gravity-flow`, 0 kWh); the others leave the cycle incomplete.
+ */
+export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "throttled-at-min-on-curve-speed"];
 const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);
 
 export interface StepResult {
@@ -216,6 +228,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     let shaft: number | null;
     let eta: number | null;
     let lowest = false;
+    let throttled: string | null = null; // the text of a step held at its lowest on-curve speed
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
@@ -258,6 +271,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
+      } else if (sol.status === "outside-curve" && sol.edge?.at === "end") {
+        // Past the curve's end at every on-curve speed: held at the lowest on-curve speed, the surplus throttled (module comment).
+        n = sol.edge.ratio;
+        const hPump = n * n * headAt(curve, curve.flowMax)!;
+        const [gives, needs] = qtPair("head", hPump, head);
+        const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
+        throttled = `at ${fmtPct(n)} speed, the lowest where ${qt("flow", q)} is on the curve (its end: ${qt("flow", curve.flowMax)} as published at full speed); the pump gives ${gives}, ${asks} ${needs}: ${qt("head", hPump - head)} throttled by a valve or the system's balancing (common practice: a drive is not run below the speed at which the flow leaves the curve); energy at this speed and flow with the pump's head`;
+        head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
         return none("beyond-curve", `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
@@ -281,8 +302,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
-      energyKWh: (electricalPower * s.hours) / 1000, status: "ok",
-      message: lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled",
+      energyKWh: (electricalPower * s.hours) / 1000, status: throttled ? "throttled-at-min-on-curve-speed" : "ok",
+      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled"),
     };
   });
   const complete = steps.every((s) => stepCounted(s) || s.hours === 0);

@@ -183,11 +183,13 @@ type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?
 
 /**
  * How a step that is not "ok" reads at the step: met by gravity with the pump stopped (no pump head needed, 0 kWh, counted),
- * not computed (no data) or not met (the pump or the control cannot reach it).
+ * met at the lowest speed that keeps the flow on the curve with the surplus head throttled (counted), not computed (no
+ * data) or not met (the pump or the control cannot reach it).
  */
 export function stepVerdict(s: { status: string }): string {
   if (s.status === "ok") return "";
   if (s.status === "gravity-flow") return "met by gravity, pump stopped";
+  if (s.status === "throttled-at-min-on-curve-speed") return "met, throttled at the lowest on-curve speed";
   return s.status === "no-power-data" ? "not computed" : "not met";
 }
 
