@@ -188,8 +188,15 @@ function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number,
     prevS = s; prevF = fs;
   }
   const fMax = f(sMax);
-  if (fMax < 0) return sMax < hi ? { status: "outside-curve", ratio: null, edge: { at: "start", ratio: sMax, head: fMax + hd } } : { status: "duty-above-curve", ratio: null };
-  return sMin > lo ? { status: "outside-curve", ratio: null, edge: { at: "end", ratio: sMin, head: f(sMin) + hd } } : { status: "duty-below-limit", ratio: null };
+  // Below `hi` the range ends where Qd meets the curve's first flow (sMax = sStart), above `lo` where it meets its last
+  // (sMin = sEnd): the pump's head there is the curve's end point scaled, s²·H(end), read at the end itself (not at
+  // Qd/s^k, which rounding can put a hair past it, where the curve says nothing).
+  const edge = (at: "start" | "end", s: number, q: number): CurveEdge | null => {
+    const h = evalAtEnds(c.head, q);
+    return h !== null && Number.isFinite(s * s * h) ? { at, ratio: s, head: s * s * h } : null;
+  };
+  if (fMax < 0) return sMax < hi ? { status: "outside-curve", ratio: null, edge: edge("start", sMax, c.flowMin) } : { status: "duty-above-curve", ratio: null };
+  return sMin > lo ? { status: "outside-curve", ratio: null, edge: edge("end", sMin, c.flowMax) } : { status: "duty-below-limit", ratio: null };
 }
 
 function checkDuty(duty: { flow: number; head: number }) {
