@@ -15,8 +15,10 @@ const OLDER_SCRIPT =
 // when it was kept, photos). Answers JSON: 201 { id } when recorded, 200 { id, duplicate: true } when that
 // device id was recorded already by the same user (a retry), 409 { conflict, latest? } when the selection
 // changed or the amended version was amended meanwhile, 409 problem { code: "client-id-taken" } when another
-// user's check has that device id, 400/422 { errors }. The check is for the workspace it was entered in
-// (`pageWorkspaceId`, which the queue sends from the check's owner), checked before the selection is opened:
+// user's check has that device id, 400/422 { errors }. The selection's change carries `code: "selection-changed"`:
+// only that conflict may be recorded against the selection as it is now (sent without `basedOn`). The check is for
+// the workspace it was entered in (`pageWorkspaceId`, which the queue sends from the check's owner), checked before
+// the selection is opened:
 // 409 { staleWorkspace } when the session works in another one now (the phone keeps it waiting); without
 // the field (an older page's script) 409 { conflict } asking for a reload, never a refusal the phone could
 // only delete.
@@ -30,7 +32,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (refused) return Response.json({ conflict: OLDER_SCRIPT, latest: null }, { status: 409 });
     const outcome = await submitCheckForm(viewerOf(member), selectionId, form);
     if (outcome.ok) return Response.json({ id: outcome.id, duplicate: outcome.duplicate, url: `/field/checks/${outcome.id}` }, { status: outcome.duplicate ? 200 : 201 });
-    if ("conflict" in outcome) return Response.json({ conflict: outcome.conflict, latest: outcome.latest }, { status: 409 });
+    if ("conflict" in outcome)
+      return Response.json({ conflict: outcome.conflict, latest: outcome.latest, ...(outcome.selectionChanged ? { code: "selection-changed" } : {}) }, { status: 409 });
     return Response.json({ errors: outcome.errors }, { status: outcome.status });
   } catch (e) {
     return asProblem(e);

@@ -3,14 +3,14 @@ import type { Route } from "./+types/field";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { fieldHome } from "~/lib/fieldchecks/records.server";
-import { FieldCaution, VerdictBadge } from "~/components/fieldcheck";
+import { CheckWhen, FieldCaution, VerdictBadge } from "~/components/fieldcheck";
 import { PendingChecks, usePendingChecks } from "~/components/field/PendingChecks";
 import { OfflineReady, useOfflineCopies } from "~/components/field/offline";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { renderDeep } from "~/lib/shared/units";
-import { fmtDate } from "~/lib/shared/format";
 
-// GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks.
+// GET /field — selections open for field checks (shared with this workspace, and its own) and recent checks (newest
+// first by the time their readings were taken, else recorded; both times shown, as in the history).
 
 export const meta: Route.MetaFunction = () => [{ title: "Field checks · Dutymark" }, { name: "theme-color", content: "#0d4a45" }];
 export const links: Route.LinksFunction = () => [{ rel: "manifest", href: "/field.webmanifest" }, { rel: "apple-touch-icon", href: "/icons/field-192.png" }];
@@ -77,7 +77,7 @@ export default function FieldHome() {
                   {c.selection} · check {c.id} v{c.version}
                 </a>
                 <span className="text-slate-600">
-                  {fmtDate(c.createdAt)} · {c.byName || "—"} ({c.byWorkspace})
+                  <CheckWhen times={c.times} /> · {c.byName || "—"} ({c.byWorkspace})
                 </span>
                 <VerdictBadge verdict={c.verdict} grade={c.grade} />
               </li>

@@ -80,14 +80,25 @@ export async function action({ request }: Route.ActionArgs) {
     case "revoke-invite":
       if (!(await revokeInvitation(ws.id, f.invitationId))) return invalid({ _form: "No such invitation." }, 404);
       return { notice: "Invitation withdrawn." };
-    case "role":
+    case "role": {
+      const res = await changeRole(ws.id, f.membershipId, f.role);
+      return typeof res === "string" ? memberRefusal(res) : { notice: roleNotice(f.role, res.withdrawnSentByThem) };
+    }
     case "remove": {
-      const res = f.intent === "role" ? await changeRole(ws.id, f.membershipId, f.role) : await removeMember(ws.id, f.membershipId);
-      if (res === "not-found") return invalid({ _form: "No such member." }, 404);
-      if (res === "last-admin") return invalid({ _form: "A workspace needs at least one admin." }, 409);
-      return { notice: typeof res === "string" ? "Role changed." : removalNotice(res) };
+      const res = await removeMember(ws.id, f.membershipId);
+      return typeof res === "string" ? memberRefusal(res) : { notice: removalNotice(res) };
     }
   }
+}
+
+/** A member change refused: the member is not in this workspace, or the workspace would be left without an admin. */
+const memberRefusal = (res: "not-found" | "last-admin") =>
+  res === "not-found" ? invalid({ _form: "No such member." }, 404) : invalid({ _form: "A workspace needs at least one admin." }, 409);
+
+/** What a role change did, with its numbers: the role, and the pending invitations withdrawn with it (a role that may not invite). */
+function roleNotice(role: string, withdrawn: number): string {
+  const what = withdrawn === 1 ? "1 pending invitation they had sent" : `${withdrawn} pending invitations they had sent`;
+  return withdrawn ? `Role changed to ${role}; withdrawn with it, as a ${role} may not invite: ${what}.` : `Role changed to ${role}.`;
 }
 
 /** What a removal did, with its numbers: the member, and the pending invitations withdrawn with them. */
@@ -192,7 +203,7 @@ export default function Workspace() {
         {admin ? (
           <p className="mt-2 text-sm text-slate-600">
             Removing someone also withdraws the invitations to their address that are still pending here, and the pending invitations they sent;
-            invitations already accepted stay. A workspace keeps at least one admin.
+            giving an admin a role that may not invite withdraws the pending invitations they sent. Invitations already accepted stay. A workspace keeps at least one admin.
           </p>
         ) : null}
       </section>

@@ -192,6 +192,7 @@ describe("a field check on a selection open to both workspaces", () => {
     const queued = await s.byQueue({});
     expect(queued.status).toBe(409); // a 400 was shown as "refused", which the phone can only delete
     expect(queued.body).toMatchObject({ latest: null });
+    expect((queued.body as { code?: string }).code).toBeUndefined(); // not the selection's change: the phone sends it again with its fingerprint
     expect((queued.body as { conflict: string }).conflict).toMatch(/older copy of this page.*Reload the page, make sure you are in that workspace, and send it again\./);
     expect(await s.checks()).toEqual([]);
   });

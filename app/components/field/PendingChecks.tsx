@@ -71,7 +71,7 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                   <Resend label={`Record as the amendment of version ${c.latest.version} (becomes version ${c.latest.version + 1})`} send={() => sendAsAmendmentOfLatest(c)} after={after} />
                 </>
               ) : c.status === "conflict" ? (
-                <Resend label="Record against the selection as it is now" send={() => sendDespiteConflict(c)} after={after} />
+                <Resend label={c.selectionChanged ? "Record against the selection as it is now" : "Send again"} send={() => sendDespiteConflict(c)} after={after} />
               ) : null}
               {c.status === "refused" && c.refusedFor === "photos" && c.photos.length ? (
                 <Resend

@@ -25,6 +25,11 @@ export type QueuedCheck = {
   message?: string;
   /** A conflict because the amended version was amended meanwhile: the chain's latest, which may be amended instead. */
   latest?: { id: number; version: number } | null;
+  /**
+   * A conflict because the selection changed since the form was opened (the server's `code: "selection-changed"`): only
+   * this one may be recorded against the selection as it is now, without its fingerprint.
+   */
+  selectionChanged?: boolean;
   /** Refused for its photos (too large, or not images): it may be sent again without them. */
   refusedFor?: "photos";
 };

@@ -15,7 +15,7 @@ vi.mock("./queue", () => ({
   deleteQueued: async (id: string) => void store.delete(id),
   allQueued: async () => [...store.values()],
 }));
-const { addSent, afterAnswer, checkBody, ownerWorkspaceId, sendAsAmendmentOfLatest, sendWaiting, sendWithoutPhotos } = await import("./sync");
+const { addSent, afterAnswer, checkBody, ownerWorkspaceId, sendAsAmendmentOfLatest, sendDespiteConflict, sendWaiting, sendWithoutPhotos } = await import("./sync");
 
 type Sent = { url: string; body: FormData };
 let sent: Sent[] = [];
@@ -84,6 +84,36 @@ describe("the phone's send queue", () => {
     expect(sent[1].body.get("amends")).toBe("60");
     expect(sent[1].body.get("basedOn")).toBe("f".repeat(32)); // a changed selection is still caught
     expect(store.size).toBe(0);
+  });
+
+  test("held because an older page's script did not say its workspace: sent again after the reload with its own fingerprint", async () => {
+    // The route's 409 to a check without its workspace (OLDER_SCRIPT in field.selections.$id.checks.ts): no `code`.
+    store.set("phone-0000-aaaa", queued());
+    answers.push(json(409, { conflict: "Not recorded: this check was kept by an older copy of this page, which did not say which workspace it was entered in. Reload the page …", latest: null }));
+    await sendWaiting("user-1/41");
+    const c = stored()!;
+    expect(c.status).toBe("conflict");
+    expect(c.selectionChanged).toBeUndefined();
+    answers.push(json(201, { id: 95, duplicate: false }));
+    expect(await sendDespiteConflict(c)).toMatchObject({ id: 95 });
+    expect(sent[1].body.get("basedOn")).toBe("f".repeat(32)); // a change of the selection meanwhile is still caught
+    expect(sent[1].body.get("pageWorkspaceId")).toBe("41");
+    // Kept so by an older script (no marker at all): the same, with its fingerprint.
+    store.set("phone-0000-bbbb", queued({ clientId: "phone-0000-bbbb", status: "conflict", message: "Not recorded: …" }));
+    answers.push(json(201, { id: 96, duplicate: false }));
+    await sendDespiteConflict(stored("phone-0000-bbbb")!);
+    expect(sent[2].body.get("basedOn")).toBe("f".repeat(32));
+  });
+
+  test("the selection changed (409 code selection-changed): 'as it is now' records without the old fingerprint", async () => {
+    store.set("phone-0000-aaaa", queued());
+    answers.push(json(409, { conflict: "The selection changed after this phone opened it: …", latest: null, code: "selection-changed" }));
+    await sendWaiting("user-1/41");
+    const c = stored()!;
+    expect(c).toMatchObject({ status: "conflict", selectionChanged: true });
+    answers.push(json(201, { id: 97, duplicate: false }));
+    expect(await sendDespiteConflict(c)).toMatchObject({ id: 97 });
+    expect(sent[1].body.get("basedOn")).toBeNull();
   });
 
   test("refused for its photos (413 from the body limit, or 422 naming the photos): marked so, and sent again without them", async () => {
@@ -156,6 +186,7 @@ describe("what the queue does with the answer", () => {
 
   test("409 conflict: kept as a conflict; 400: refused; 201: recorded; 503: later", () => {
     expect(afterAnswer(409, false, { conflict: "changed" })).toEqual({ kind: "keep", status: "conflict", message: "changed" });
+    expect(afterAnswer(409, false, { conflict: "changed", latest: null, code: "selection-changed" })).toEqual({ kind: "keep", status: "conflict", message: "changed", selectionChanged: true });
     expect(afterAnswer(400, false, { errors: { gradeId: "Choose a tolerance grade from the table." } })).toEqual({ kind: "keep", status: "refused", message: "Choose a tolerance grade from the table." });
     expect(afterAnswer(201, true, { id: 5 })).toEqual({ kind: "recorded", id: 5, duplicate: false });
     expect(afterAnswer(503, false, null)).toEqual({ kind: "later" });

@@ -46,7 +46,7 @@ export type Answer = {
 
 export type Next =
   | { kind: "recorded"; id: number; duplicate: boolean }
-  | { kind: "keep"; status: QueuedCheck["status"]; message: string; latest?: { id: number; version: number }; refusedFor?: "photos" }
+  | { kind: "keep"; status: QueuedCheck["status"]; message: string; latest?: { id: number; version: number }; selectionChanged?: true; refusedFor?: "photos" }
   | { kind: "later"; message?: string }
   | { kind: "new-id" };
 
@@ -61,7 +61,16 @@ export function afterAnswer(status: number, ok: boolean, answer: Answer): Next {
   if (status === 409 && answer?.staleWorkspace) return { kind: "later", message: answer.staleWorkspace };
   // Another user's check has this device id, so this one was not recorded under it.
   if (status === 409 && answer?.code === "client-id-taken") return { kind: "new-id" };
-  if (status === 409 && answer?.conflict) return { kind: "keep", status: "conflict", message: answer.conflict, ...(answer.latest ? { latest: answer.latest } : {}) };
+  // A conflict: the amended version was amended meanwhile (`latest`), the selection changed (`code`), or, without either,
+  // it was held for another reason (an older page's script that did not say its workspace: a reload resolves it).
+  if (status === 409 && answer?.conflict)
+    return {
+      kind: "keep",
+      status: "conflict",
+      message: answer.conflict,
+      ...(answer.latest ? { latest: answer.latest } : {}),
+      ...(answer.code === "selection-changed" ? { selectionChanged: true as const } : {}),
+    };
   // The body limit (413, before any JSON) or a photo the server would not take: it may go again without them.
   if (status === 413) return { kind: "keep", status: "refused", message: tooLargeText(), refusedFor: "photos" };
   if (status === 422 && answer?.errors?.photos) return { kind: "keep", status: "refused", message: answer.errors.photos, refusedFor: "photos" };
@@ -82,7 +91,7 @@ async function sendOne(check: QueuedCheck, opts: { ignoreConflict?: boolean; reI
   const answer = (await res.json().catch(() => null)) as Answer;
   const next = afterAnswer(res.status, res.ok, answer);
   // What an earlier answer said of it goes: the check is kept with this answer's words only.
-  const kept = { ...check, message: undefined, latest: undefined, refusedFor: undefined };
+  const kept = { ...check, message: undefined, latest: undefined, selectionChanged: undefined, refusedFor: undefined };
   if (next.kind === "recorded") {
     await deleteQueued(check.clientId);
     return { clientId: check.clientId, id: next.id, duplicate: next.duplicate };
@@ -97,7 +106,7 @@ async function sendOne(check: QueuedCheck, opts: { ignoreConflict?: boolean; reI
   if (next.kind === "new-id") {
     await putQueued({ ...kept, status: "refused", message: answer?.detail ?? `The server refused this check (${res.status}).` });
   } else if (next.kind === "keep") {
-    await putQueued({ ...kept, status: next.status, message: next.message, latest: next.latest, refusedFor: next.refusedFor });
+    await putQueued({ ...kept, status: next.status, message: next.message, latest: next.latest, selectionChanged: next.selectionChanged, refusedFor: next.refusedFor });
   } else if (next.message) await putQueued({ ...kept, status: "waiting", message: next.message });
   return null;
 }
@@ -133,8 +142,13 @@ export function sendWaiting(owner: string): Promise<Sent[]> {
   return running;
 }
 
-/** After the contractor has looked at the conflict: record against the selection as it is now. */
-export const sendDespiteConflict = (check: QueuedCheck) => sendOne({ ...check, status: "waiting" }, { ignoreConflict: true });
+/**
+ * After the contractor has looked at the conflict. The selection changed (the server said so): record against the
+ * selection as it is now, without the fingerprint. Any other conflict (held because an older page's script did not say
+ * its workspace, or kept so by such a script): sent again with its own fingerprint, since the reload resolved only the
+ * workspace, so a change of the selection meanwhile is still caught (and then offers "as it is now").
+ */
+export const sendDespiteConflict = (check: QueuedCheck) => sendOne({ ...check, status: "waiting" }, { ignoreConflict: check.selectionChanged === true });
 
 /** The amended version was amended meanwhile: record these readings as an amendment of the latest version instead. */
 export const sendAsAmendmentOfLatest = (check: QueuedCheck) =>

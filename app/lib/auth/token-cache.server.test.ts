@@ -43,7 +43,7 @@ describe("verified API tokens are remembered for a few seconds", () => {
     const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "cache", scope: "write" });
     expect(await status(requireApi(call(token), "project.write"))).toBe(200);
     const [row] = await db().select({ id: memberships.id }).from(memberships).where(eq(memberships.userId, m.userId));
-    expect(await changeRole(m.workspaceId, row.id, "viewer")).toBe("ok");
+    expect(await changeRole(m.workspaceId, row.id, "viewer")).toEqual({ changed: true, withdrawnSentByThem: 0 });
     expect(await status(requireApi(call(token), "project.write"))).toBe(403); // viewers may not write projects (permissions.ts)
     expect(await removeMember(m.workspaceId, row.id)).toMatchObject({ removed: true });
     expect(await status(requireApi(call(token), "library.read"))).toBe(401);

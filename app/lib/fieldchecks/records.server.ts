@@ -76,12 +76,15 @@ export async function fieldSelection(viewer: Viewer, selectionId: number) {
   };
 }
 
-/** Selections open to the viewer: shared with their workspace, and their own workspace's. */
+/**
+ * Selections open to the viewer (shared with their workspace, and their own workspace's) and their 30 latest checks,
+ * newest first by the time their readings were taken (else recorded), each with both times (taken-at.ts), as the history.
+ */
 export async function fieldHome(viewer: Viewer) {
   const shared = await sharedProjectIds(viewer);
   const where = shared.length ? or(eq(selections.workspaceId, viewer.workspace.id), inArray(selections.projectId, shared)) : eq(selections.workspaceId, viewer.workspace.id);
   const sels = await db()
-    .select({ id: selections.id, title: selections.title, projectName: projects.name, systemName: systems.name, ownerName: workspaces.name, workspaceId: selections.workspaceId })
+    .select({ id: selections.id, title: selections.title, projectName: projects.name, systemName: systems.name, ownerName: workspaces.name, workspaceId: selections.workspaceId, createdAt: selections.createdAt })
     .from(selections)
     .innerJoin(projects, eq(projects.id, selections.projectId))
     .innerJoin(systems, eq(systems.id, selections.systemId))
@@ -92,18 +95,24 @@ export async function fieldHome(viewer: Viewer) {
   const ids = sels.map((s) => s.id);
   const checks = ids.length
     ? await db()
-        .select({ id: fieldChecks.id, selectionId: fieldChecks.selectionId, version: fieldChecks.version, verdict: fieldChecks.verdict, grade: fieldChecks.grade, createdAt: fieldChecks.createdAt, byName: users.name, byWorkspace: workspaces.name })
+        .select({ id: fieldChecks.id, selectionId: fieldChecks.selectionId, version: fieldChecks.version, verdict: fieldChecks.verdict, grade: fieldChecks.grade, takenAt: fieldChecks.takenAt, createdAt: fieldChecks.createdAt, byName: users.name, byWorkspace: workspaces.name })
         .from(fieldChecks)
         .leftJoin(users, eq(users.id, fieldChecks.createdBy))
         .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
         .where(inArray(fieldChecks.selectionId, ids))
-        .orderBy(desc(fieldChecks.id))
+        .orderBy(desc(sql`COALESCE(${fieldChecks.takenAt}, ${fieldChecks.createdAt})`), desc(fieldChecks.id))
         .limit(30)
     : [];
   const titleOf = new Map(sels.map((s) => [s.id, `${s.title} · ${s.projectName}`]));
+  const madeAt = new Map(sels.map((s) => [s.id, s.createdAt]));
   return {
     selections: sels.map((s) => ({ id: s.id, title: s.title, projectName: s.projectName, systemName: s.systemName, ownerName: s.ownerName, own: s.workspaceId === viewer.workspace.id })),
-    checks: checks.map((c) => ({ ...c, createdAt: c.createdAt.toISOString(), selection: titleOf.get(c.selectionId) ?? "" })),
+    checks: checks.map(({ takenAt, ...c }) => ({
+      ...c,
+      createdAt: c.createdAt.toISOString(),
+      times: checkTimes(takenAt, c.createdAt, madeAt.get(c.selectionId) ?? c.createdAt),
+      selection: titleOf.get(c.selectionId) ?? "",
+    })),
   };
 }
 

@@ -15,7 +15,7 @@ const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "ph
 export type SubmitOutcome =
   | { ok: true; id: number; duplicate: boolean }
   | { ok: false; status: 400 | 422; errors: Record<string, string>; fields: CheckFields }
-  | { ok: false; status: 409; conflict: string; latest: { id: number; version: number } | null; fields: CheckFields };
+  | { ok: false; status: 409; conflict: string; latest: { id: number; version: number } | null; selectionChanged: boolean; fields: CheckFields };
 
 /** Validates the form, reads the photos and records the check (once per device id). */
 export async function submitCheckForm(viewer: Viewer, selectionId: number, form: FormData): Promise<SubmitOutcome> {
@@ -51,7 +51,8 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
   } catch (e) {
     if (e instanceof PhotoRejected) return { ok: false, status: 422, errors: { photos: e.message }, fields };
     if (e instanceof EngineInputError) return { ok: false, status: 422, errors: { _form: `These readings cannot be worked out: ${e.message}.` }, fields };
-    if (e instanceof CheckConflict) return { ok: false, status: 409, conflict: e.message, latest: e.latest, fields };
+    // `current` (the selection's fingerprint now) is set only when the selection changed since the device opened it.
+    if (e instanceof CheckConflict) return { ok: false, status: 409, conflict: e.message, latest: e.latest, selectionChanged: e.current !== "", fields };
     throw e;
   }
 }

@@ -114,6 +114,7 @@ describe("field checks sent from the phone's queue", () => {
     const res = await send(clientId);
     expect(res.status).toBe(409);
     expect((res.body as { conflict: string }).conflict).toMatch(/selection changed/);
+    expect(res.body).toMatchObject({ latest: null, code: "selection-changed" }); // the phone offers "as it is now" only for this
     expect(await rowsOf(clientId)).toHaveLength(0);
     const decided = await send(clientId, { basedOn: "" });
     expect(decided.status).toBe(201);

@@ -1,6 +1,6 @@
 // The time the readings were taken (the phone's clock, `takenAt`) is kept beside the time the server recorded
 // the check: sent by the queue, stored, shown on the record and in the e-mail, flagged when it cannot be right,
-// and the history is ordered by it (real MariaDB, through the route modules).
+// and the history and the field home's recent checks are ordered by it (real MariaDB, through the route modules).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -10,6 +10,7 @@ import { call, makeMember, type TestMember } from "~/test/harness";
 import { fieldsForHead, storeSelection } from "~/test/fieldcheck-fixture";
 import * as syncRoute from "~/routes/field.selections.$id.checks";
 import * as recordRoute from "~/routes/field.checks.$id";
+import * as fieldHomeRoute from "~/routes/field";
 import { checkHistory } from "./records.server";
 import { shareProject } from "../projects/shares.server";
 import type { Viewer } from "../libraries";
@@ -67,6 +68,18 @@ describe("the time the readings were taken", () => {
     const earlier = await send(new Date(Date.now() - 50 * MIN).toISOString()); // sent second, taken first
     const order = (await checkHistory(engV, sel.selectionId)).checks.map((c) => c.id);
     expect(order.indexOf(idOf(later))).toBeLessThan(order.indexOf(idOf(earlier)));
+  });
+
+  test("the field home's recent checks are ordered by the time taken too, each with both times", async () => {
+    const later = await send(new Date(Date.now() - 25 * MIN).toISOString());
+    const earlier = await send(new Date(Date.now() - 55 * MIN).toISOString()); // sent second, taken first
+    const home = (await call(fieldHomeRoute.loader as never, { path: "/field", cookie: con.cookie })).body as { checks: { id: number; times: Times }[] };
+    const ids = home.checks.map((c) => c.id);
+    expect(ids.indexOf(idOf(later))).toBeGreaterThanOrEqual(0);
+    expect(ids.indexOf(idOf(later))).toBeLessThan(ids.indexOf(idOf(earlier)));
+    const listed = home.checks.find((c) => c.id === idOf(earlier))!;
+    expect(listed.times.text).toMatch(/^taken \d{4}-\d\d-\d\d \d\d:\d\d UTC \(device clock\) · recorded \d{4}-\d\d-\d\d \d\d:\d\d UTC$/);
+    expect(listed.times.warnings).toEqual([]);
   });
 
   test("a device clock ahead of the server's, or before the selection was made, is flagged with its numbers", async () => {

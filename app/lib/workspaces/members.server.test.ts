@@ -5,7 +5,8 @@ import { afterAll, describe, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { invitations, memberships } from "@db/schema";
-import { makeMember, makeWorkspace, type TestMember } from "~/test/harness";
+import { call, makeMember, makeWorkspace, type TestMember } from "~/test/harness";
+import * as workspaceRoute from "~/routes/workspace";
 import { acceptInvitation, changeRole, invite, removeMember } from ".";
 import type { Role } from "../auth/permissions";
 
@@ -83,6 +84,58 @@ describe("a removed member does not come back through an older invitation", () =
     const other = await sendInvite(elsewhere, bob.email, "engineer");
     await removeMember(admin.workspaceId, (await membershipOf(admin.workspaceId, bob.userId)).id);
     expect(await acceptInvitation(other, bob.userId)).toEqual({ ok: true, workspaceId: elsewhere.workspaceId });
+  });
+});
+
+describe("a demoted admin no longer vouches for the invitations they sent", () => {
+  // Our own rule, as for a removal: only a role that may invite (members.manage, permissions.ts) vouches for the
+  // people it invited; demoted below it, their pending invitations go in the demotion's transaction.
+  test("demoted to engineer: their pending invitations are withdrawn and counted; used ones and other admins' stay", async () => {
+    const admin = await makeMember("admin");
+    const demoted = await makeMember("admin", admin.workspaceId);
+    const carol = await makeMember("viewer");
+    const dan = await makeMember("viewer");
+    const erin = await makeMember("viewer");
+    const frank = await makeMember("viewer");
+    const toCarol = await sendInvite(demoted, carol.email, "admin");
+    await sendInvite(demoted, frank.email, "viewer");
+    const toDan = await sendInvite(demoted, dan.email, "engineer");
+    const toErin = await sendInvite(admin, erin.email, "engineer");
+    await acceptInvitation(toDan, dan.userId); // used before the demotion: stays
+
+    const change = await changeRole(admin.workspaceId, (await membershipOf(admin.workspaceId, demoted.userId)).id, "engineer");
+    expect((await membershipOf(admin.workspaceId, demoted.userId)).role).toBe("engineer");
+    expect((await invitationsTo(admin.workspaceId, carol.email))[0].revokedAt).not.toBeNull();
+    expect((await invitationsTo(admin.workspaceId, frank.email))[0].revokedAt).not.toBeNull();
+    expect(await acceptInvitation(toCarol, carol.userId)).toEqual({ ok: false, reason: "unusable" });
+    expect(await membershipOf(admin.workspaceId, carol.userId)).toBeUndefined();
+    expect(change).toEqual({ changed: true, withdrawnSentByThem: 2 });
+    expect((await invitationsTo(admin.workspaceId, dan.email))[0].revokedAt).toBeNull();
+    expect(await acceptInvitation(toErin, erin.userId)).toEqual({ ok: true, workspaceId: admin.workspaceId }); // another admin's
+  });
+
+  test("the workspace page's notice says the new role and how many invitations went with it", async () => {
+    const admin = await makeMember("admin");
+    const demoted = await makeMember("admin", admin.workspaceId);
+    await sendInvite(demoted, "one-pending@example.test", "viewer");
+    const form = (membershipId: number, role: Role) => ({ intent: "role", membershipId: String(membershipId), role, pageWorkspaceId: String(admin.workspaceId) });
+    const m = (await membershipOf(admin.workspaceId, demoted.userId)).id;
+    const r = await call(workspaceRoute.action as never, { path: "/workspace", cookie: admin.cookie, form: form(m, "contractor") });
+    expect(r.body).toEqual({ notice: "Role changed to contractor; withdrawn with it, as a contractor may not invite: 1 pending invitation they had sent." });
+    const again = await call(workspaceRoute.action as never, { path: "/workspace", cookie: admin.cookie, form: form(m, "viewer") });
+    expect(again.body).toEqual({ notice: "Role changed to viewer." }); // nothing pending left
+  });
+
+  test("a role that may still invite (admin to admin) withdraws nothing; refused changes withdraw nothing", async () => {
+    const admin = await makeMember("admin");
+    const other = await makeMember("admin", admin.workspaceId);
+    const carol = await makeMember("viewer");
+    const toCarol = await sendInvite(admin, carol.email, "viewer");
+    const mAdmin = (await membershipOf(admin.workspaceId, admin.userId)).id;
+    expect(await changeRole(admin.workspaceId, mAdmin, "admin")).toEqual({ changed: true, withdrawnSentByThem: 0 });
+    await removeMember(admin.workspaceId, (await membershipOf(admin.workspaceId, other.userId)).id);
+    expect(await changeRole(admin.workspaceId, mAdmin, "viewer")).toBe("last-admin"); // refused: the invitation stays
+    expect(await acceptInvitation(toCarol, carol.userId)).toEqual({ ok: true, workspaceId: admin.workspaceId });
   });
 });
 

@@ -1,13 +1,13 @@
 // Workspaces and their members: create, rename, currency, list, change a role, remove. A workspace
 // always keeps at least one admin; member changes lock the workspace's row first (`lockMembers`).
-// Removal withdraws pending invitations to and from the member. Membership changes clear the
-// verified-token cache once committed.
+// Removal withdraws pending invitations to and from the member; a change to a role that may not invite
+// withdraws those the member sent. Membership changes clear the verified-token cache once committed.
 import { and, eq, isNull, ne, count } from "drizzle-orm";
 import { affectedRows, db, withTransaction, type Db } from "@db/client.server";
 import { apiTokens, invitations, memberships, users, workspaces } from "@db/schema";
 import { newSecret } from "../auth/secrets.server";
 import { forgetTokens } from "../auth/token-cache.server";
-import type { Role } from "../auth/permissions";
+import { can, type Role } from "../auth/permissions";
 
 /** Membership and token changes clear the verified-token cache once committed (token-cache.server.ts). */
 export const clearingTokens = <T>(work: Promise<T>): Promise<T> => work.finally(forgetTokens);
@@ -101,14 +101,30 @@ async function lockedMember(tx: Db, workspaceId: number, membershipId: number) {
 
 export type MemberChange = "ok" | "not-found" | "last-admin";
 
-/** Changes a member's role; a workspace always keeps at least one admin. */
-export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<MemberChange> {
+/** A role change, with the pending invitations it withdrew: those the member had sent, once their new role may not invite. */
+export type RoleChange = Exclude<MemberChange, "ok"> | { changed: true; withdrawnSentByThem: number };
+
+/** This workspace's invitations not yet accepted nor withdrawn. */
+const pendingIn = (workspaceId: number) => and(eq(invitations.workspaceId, workspaceId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
+
+/** Withdraws the pending invitations `userId` sent in the workspace; answers how many. */
+async function withdrawSentBy(tx: Db, workspaceId: number, userId: string, now: Date): Promise<number> {
+  return affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pendingIn(workspaceId), eq(invitations.invitedBy, userId))));
+}
+
+/**
+ * Changes a member's role; a workspace always keeps at least one admin. To a role that may not invite
+ * (`members.manage`), the member's pending invitations in this workspace are withdrawn in the same transaction, as
+ * at a removal: whom they invited is vouched for by a member who may invite only while they may.
+ */
+export async function changeRole(workspaceId: number, membershipId: number, role: Role): Promise<RoleChange> {
   return clearingTokens(withTransaction(async (tx) => {
     const m = await lockedMember(tx, workspaceId, membershipId);
     if (!m) return "not-found";
     if (m.role === "admin" && role !== "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
     await tx.update(memberships).set({ role }).where(eq(memberships.id, m.id));
-    return "ok";
+    const withdrawn = can(role, "members.manage") ? 0 : await withdrawSentBy(tx, workspaceId, m.userId, new Date());
+    return { changed: true, withdrawnSentByThem: withdrawn };
   }));
 }
 
@@ -128,10 +144,9 @@ export async function removeMember(workspaceId: number, membershipId: number): P
     if (!m) return "not-found";
     if (m.role === "admin" && (await adminCount(tx, workspaceId)) <= 1) return "last-admin";
     const [u] = await tx.select({ email: users.email }).from(users).where(eq(users.id, m.userId));
-    const pending = and(eq(invitations.workspaceId, workspaceId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt));
     const now = new Date();
-    const toThem = u ? affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pending, eq(invitations.email, u.email)))) : 0;
-    const sentByThem = affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pending, eq(invitations.invitedBy, m.userId))));
+    const toThem = u ? affectedRows(await tx.update(invitations).set({ revokedAt: now }).where(and(pendingIn(workspaceId), eq(invitations.email, u.email)))) : 0;
+    const sentByThem = await withdrawSentBy(tx, workspaceId, m.userId, now);
     await tx.delete(memberships).where(eq(memberships.id, m.id));
     await tx.delete(apiTokens).where(and(eq(apiTokens.userId, m.userId), eq(apiTokens.workspaceId, workspaceId)));
     return { removed: true, withdrawnToThem: toThem, withdrawnSentByThem: sentByThem };
