@@ -28,7 +28,7 @@ async function importedLibrary(name: string, text: string) {
 }
 
 async function exported(libId: number) {
-  const res = await call(exportCsv.loader, { path: `/libraries/${libId}/export.csv`, cookie: d.cookie, params: { id: String(libId) } });
+  const res = await call(exportCsv.loader as Parameters<typeof call>[0], { path: `/libraries/${libId}/export.csv`, cookie: d.cookie, params: { id: String(libId) } });
   expect(res.status).toBe(200);
   return res.body as string;
 }
