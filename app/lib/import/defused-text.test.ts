@@ -10,7 +10,7 @@ import { analyseCsv } from "./index";
 
 const HEADER = ["model", "type", "size", "speed_rpm", "impeller_mm", "flow_m3h", "head_m"];
 // Names a spreadsheet would take for a formula (first character = + - @, tab, CR), and ones it would not.
-const NAMES = ["+GF 50-250", "-GF 65-160", "=GF 80-200", "@GF 32-125", "\tGF 40-160", "'plain 50-125", "GF 'quoted' 50-160"];
+const NAMES = ["+GF 50-250", "-GF 65-160", "=GF 80-200", "@GF 32-125", "\tGF 40-160", "'plain 50-125", "GF 'quoted' 50-160", "'=GF 50-200", "''+GF 40-200"];
 // What the importer keeps: the name as written, trimmed as every text cell is (a leading tab is space).
 const kept = (name: string) => name.trim();
 
@@ -28,6 +28,14 @@ describe("text cells defused by our CSV writer read back as written", () => {
     expect(a.result.curveSets.map((c) => c.ok)).toEqual(NAMES.map(() => true));
     expect(a.result.curveSets.map((c) => c.model)).toEqual(NAMES.map(kept));
     expect(a.result.curveSets.map((c) => [c.type, c.size])).toEqual(NAMES.map(() => ["+inline", "-DN50"]));
+  });
+
+  it("names that start with apostrophes before = + - @ come back with every apostrophe (the writer adds one more, the importer takes one off)", () => {
+    const odd = ["'=X 50-125", "=X 50-125", "''+Y 65-160", "'''-Z 80-200", "'@W 32-125"];
+    const a = analyseCsv(toCsv(rowsFor(odd, "'-inline", "''=DN50"), { newline: "\n" }));
+    expect(a.result.curveSets.map((c) => [c.ok, c.model, c.type, c.size])).toEqual(odd.map((n) => [true, n, "'-inline", "''=DN50"]));
+    const unquoted = "model,speed_rpm,flow_m3h,head_m\n''=X,2900,0,50\n''=X,2900,20,48\n''=X,2900,40,42\n"; // as a spreadsheet saves it again: the fast path
+    expect(analyseCsv(unquoted).result.curveSets.map((c) => c.model)).toEqual(["'=X"]);
   });
 
   it("an unquoted defused cell (a file saved again without quotes) reads the same on the fast path", () => {

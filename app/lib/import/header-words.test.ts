@@ -2,7 +2,7 @@
 // 2026-12-03: a motor's output, P_w, Förderleistung, per-unit power and units rows with a unit no field knows). Files are
 // hand-written; values are invented.
 import { describe, expect, it } from "vitest";
-import { analyseCsv } from "./index";
+import { analyseCsv, headerPowerKind, powerKindNote } from "./index";
 import type { Mapping } from "./mapping";
 import { relClose } from "./test-helpers";
 
@@ -42,6 +42,31 @@ describe("a motor's output is shaft power (P2)", () => {
     const a = analyseCsv(file("Flow m3/h,Head m,Rated motor output (kW)", ["0,20,7.5", "10,19,7.5", "20,17,7.5"]));
     expect(a.mapping.columns[4].field).toBe("ignore"); // source: common practice (a rated output is the nameplate figure, one for every point)
     expect(a.result.curveSets[0].points.every((p) => p.power === undefined)).toBe(true); // source: no power column mapped
+  });
+
+  // A rated output was left out with the P1 ("electrical input") wording, which does not describe it.
+  it.each(["Rated motor output kW", "Nennleistung Motor", "Motor rated power (kW)", "Nominal motor power", "Motornennleistung kW"])(
+    "“%s” is left out as the motor's rated output (its size), not as P1",
+    (header) => {
+      const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, ["0,20,7.5", "10,19,7.5", "20,17,7.5"]));
+      expect(a.mapping.columns[4].field).toBe("ignore"); // source: common practice (a rating is the nameplate figure, one for every point)
+      expect(headerPowerKind(header)).toBe("rated-motor"); // source: power-kinds.ts
+      expect(warnings(a).map((p) => [p.row, p.column])).toEqual([[1, header]]); // source: importer rule (one warning on the header line when no power column is mapped)
+      const reason = warnings(a)[0].reason;
+      expect(reason).toContain(`“${header}” is left unmapped: its header names the motor's rated output (its size)`); // source: importer rule (names the header)
+      expect(reason).toContain("one figure for all points, not a power at each point"); // source: common practice (nameplate rating)
+      expect(reason).not.toMatch(/P1|electrical input/); // source: the old wording (P1) does not describe a rating
+      expect(powerKindNote("rated-motor", "ignore")).toBe("the motor's rated output (its size, one figure for all points), not the shaft power (P2) at each point: left out"); // source: importer rule
+    },
+  );
+
+  it.each([
+    ["Motor kW", "input"], // source: the motor's power, not rated: P1 as before (input-power.ts)
+    ["Rated input power P1 (kW)", "input"], // source: P1 named
+    ["Rated electrical power motor", "input"], // source: electrical named
+    ["Motor output kW", null], // source: definition (a motor's output is the pump's shaft power)
+  ])("“%s” keeps its kind (%s)", (header, kind) => {
+    expect(headerPowerKind(header)).toBe(kind); // source: see the row
   });
 });
 

@@ -7,6 +7,7 @@
  * Pump data sheets write P1 for the electrical input and P2 for the shaft power (common practice);
  * "absorbed power" / "power absorbed" alone is the pump's shaft power there (common practice), unless the
  * header also says electrical; so is a motor's output ("Motor output kW": what the motor's shaft gives the pump's).
+ * A motor's rated output ("Rated motor output kW", "Nennleistung Motor") is its size: left out too, with its own message (RATED_MOTOR_POWER).
  * Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
  */
 
@@ -14,9 +15,13 @@
 const P1 = /\bp\s*-?\s*1\b/;
 /** Words that name the pump's shaft power outright: P2, shaft, brake (BHP, bkW), Welle(n), arbre. */
 const SHAFT = /\bp\s*-?\s*2\b|shaft|\bbrake\b|\bbhp\b|\bbkw\b|welle|\barbre\b/;
-/** Words that name the electrical side: electrical, "el.", kWel, kWe, Pel, wire, mains, supply, consumption, drawn, motor. */
-const ELECTRICAL =
-  /\belec|elektr|électr|\bel\b|\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b|\bwire\b|\bmains\b|\bsupply\b|\bgrid\b|consum|verbrauch|consommation|\bdrawn?\b|\bmot(?:or|eur)|\bmot\b/;
+/** Words that name the electrical side outright: electrical, "el.", kWel, kWe, Pel, wire, mains, supply, consumption, drawn. */
+const ELECTRICAL_WORDS =
+  /\belec|elektr|électr|\bel\b|\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b|\bwire\b|\bmains\b|\bsupply\b|\bgrid\b|consum|verbrauch|consommation|\bdrawn?\b/;
+/** The motor words ("Motor kW", "Motorleistung", "moteur"): a motor's power is read as its electrical input, unless it is its output or rating. */
+const MOTOR = /\bmot(?:or|eur)|\bmot\b/;
+/** Electrical words and the motor words. */
+const ELECTRICAL = new RegExp(`${ELECTRICAL_WORDS.source}|${MOTOR.source}`);
 /**
  * A motor's output: the power its shaft gives the pump's shaft, which is the pump's shaft power (P2, definition): "Motor output kW",
  * "motor output power", "Motor power output", "Output of motor", "Motorabgabeleistung", "Puissance utile moteur" (from memory).
@@ -25,6 +30,8 @@ const ELECTRICAL =
  */
 const MOTOR_OUTPUT = /\bmot(?:or|eur)?\b.*\b(?:output|utile)\b|\b(?:output|utile)\b.*\bmot(?:or|eur)?\b|\bmotor\s*-?\s*abgabe|abgabeleistung.*\bmot(?:or|eur)?\b/;
 const RATED = /\brated\b|\bnominal|\bnameplate\b|\bnenn|\bbemessung/;
+/** "Motornennleistung": the rating inside one German word. */
+const NENNLEISTUNG = /nennleistung/;
 /** P2, shaft or brake words, or a motor's (not rated) output. */
 const namesShaft = (norm: string) => SHAFT.test(norm) || (MOTOR_OUTPUT.test(norm) && !RATED.test(norm));
 /** The pump's own power input (the power its driver transmits to it: shaft power, ISO 9906 wording, from memory). */
@@ -50,6 +57,16 @@ export function namesInputPower(norm: string): boolean {
   if (ELECTRICAL.test(norm)) return true;
   if (PUMP_INPUT.test(norm)) return false;
   return INPUT.test(norm);
+}
+
+/**
+ * Of a header that namesInputPower: "rated-motor" when it names a motor's rating ("Rated motor output kW", "Nennleistung Motor",
+ * "Motor rated power", "Nominal motor power", "Motornennleistung": motor words and rated/nominal/nameplate/Nenn…, and neither P1,
+ * "input" nor an electrical word), else "input" (P1). The rating is the motor's size, one figure for every point (common practice).
+ */
+export function inputPowerKind(norm: string): "input" | "rated-motor" {
+  const rated = MOTOR.test(norm) && (RATED.test(norm) || NENNLEISTUNG.test(norm));
+  return rated && !P1.test(norm) && !INPUT.test(norm) && !ELECTRICAL_WORDS.test(norm) ? "rated-motor" : "input";
 }
 
 /** A power column that is not the pump's shaft power: what its header names, and why reading it as P2 misleads. */
@@ -92,6 +109,18 @@ export const INPUT_POWER: NotShaftPower = {
   why:
     "Dutymark's power is the pump's shaft power (P2), and P2 = P1 × motor efficiency (× drive efficiency): P1 read as P2 overstates it " +
     "(a small wet-rotor circulator's P1 can be about twice its P2), so efficiencies worked out from it come out too low and the motor is sized too large",
+};
+
+/** A motor's rated output (inputPowerKind): its size, the same figure on every row, not the shaft power at each point. */
+export const RATED_MOTOR_POWER: NotShaftPower = {
+  names: "the motor's rated output (its size)",
+  leftOut: ": one figure for all points, not a power at each point",
+  values: "the motor's rating",
+  note: "the motor's rated output (its size, one figure for all points), not the shaft power (P2) at each point",
+  why:
+    "Dutymark's power is the pump's shaft power (P2) at each point of the curve; a motor's rating is the size of the motor fitted, written " +
+    "the same on every row (a 7.5 kW motor reads 7.5 at shutoff and at the last point), so read as P2 every point would draw the full rating " +
+    "and efficiencies worked out from it would be wrong (common practice: the motor is sized above the pump's highest shaft power)",
 };
 
 /**

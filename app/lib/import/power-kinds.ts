@@ -4,18 +4,18 @@
  * The words are in input-power.ts, hydraulic-power.ts, per-unit.ts and ambiguous-power.ts; units-in-headers.ts
  * decides a header's kind (headerPowerKind). Pure: no Node or DOM APIs.
  */
-import { INPUT_POWER, notShaftPowerMessage, type NotShaftPower } from "./input-power";
+import { INPUT_POWER, notShaftPowerMessage, RATED_MOTOR_POWER, type NotShaftPower } from "./input-power";
 import { HYDRAULIC_POWER } from "./hydraulic-power";
 import { PER_UNIT_POWER } from "./per-unit";
 import { ambiguousPowerMessage, FLOW_OR_USEFUL_POWER, WATER_POWER_OR_WATTS, type AmbiguousPower } from "./ambiguous-power";
 
 /**
- * A power header that is not read as shaft power: the motor's electrical input (P1), the hydraulic power (ρ·g·Q·H), a
- * per-unit ratio, or a word with two readings ("P_w": water power or watts; "Förderleistung": flow or useful power).
+ * A power header that is not read as shaft power: the motor's electrical input (P1), a motor's rated output (its size), the
+ * hydraulic power (ρ·g·Q·H), a per-unit ratio, or a word with two readings ("P_w": water power or watts; "Förderleistung": flow or useful power).
  */
-export type PowerKind = "input" | "hydraulic" | "per-unit" | "water-or-watts" | "flow-or-hydraulic";
+export type PowerKind = "input" | "rated-motor" | "hydraulic" | "per-unit" | "water-or-watts" | "flow-or-hydraulic";
 
-const NOT_SHAFT: Partial<Record<PowerKind, NotShaftPower>> = { input: INPUT_POWER, hydraulic: HYDRAULIC_POWER, "per-unit": PER_UNIT_POWER };
+const NOT_SHAFT: Partial<Record<PowerKind, NotShaftPower>> = { input: INPUT_POWER, "rated-motor": RATED_MOTOR_POWER, hydraulic: HYDRAULIC_POWER, "per-unit": PER_UNIT_POWER };
 const AMBIGUOUS: Partial<Record<PowerKind, AmbiguousPower>> = { "water-or-watts": WATER_POWER_OR_WATTS, "flow-or-hydraulic": FLOW_OR_USEFUL_POWER };
 
 /** What the rest of the mapping holds: the pump efficiency column's header (or null), and whether power and flow are mapped. */

@@ -17,7 +17,7 @@
  * makes it a mapping error until the user chooses the column's unit.
  */
 import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
-import { ELECTRICAL_POWER_WORD, namesInputPower } from "./input-power";
+import { ELECTRICAL_POWER_WORD, inputPowerKind, namesInputPower } from "./input-power";
 import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
 import { PER_UNIT } from "./per-unit";
 import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
@@ -221,7 +221,7 @@ const namesPowerUnit = (norm: string) => (detectUnit("power", norm) ?? refusedAf
 function powerKindWords(norm: string): PowerKind | null {
   const field = fieldWords(norm);
   if (field === "power" && PER_UNIT.test(norm)) return "per-unit";
-  if ((field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm)) return "input";
+  if ((field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm)) return inputPowerKind(norm);
   if (field === "power" && FOERDERLEISTUNG.test(norm)) return namesPowerUnit(norm) ? "hydraulic" : "flow-or-hydraulic";
   if ((field === "power" || (field === "ignore" && HYDRAULIC_POWER_WORD.test(norm))) && namesHydraulicPower(norm)) return "hydraulic";
   return null;

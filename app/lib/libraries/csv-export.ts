@@ -4,13 +4,26 @@ import type { LibraryCurveSet } from "./libraries.server";
 
 export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
 
-/** A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units. */
+/**
+ * A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units.
+ * The key columns `speed_rpm` and `impeller_mm` are written only when some curve set carries a value:
+ * the importer refuses a blank cell in a mapped speed or diameter column (it would split a curve),
+ * so a library whose curves have no impeller diameter (or no speed) is written without that column
+ * and imports again with the diameter (speed) not given. Each set writes its value on every row.
+ * Limit: a library where some sets have a diameter and others not writes blank cells for the latter,
+ * which the importer refuses by name (missing-value); one import never makes such a revision except
+ * from a wide file mixing speed-only and diameter blocks.
+ */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
   const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));
-  const rows: unknown[][] = [EXPORT_HEADER.split(",")];
+  const withSpeed = curves.some((c) => c.speed != null);
+  const withImpeller = curves.some((c) => c.impellerDiameter != null);
+  const keep = (_: unknown, i: number) => (i !== 3 || withSpeed) && (i !== 4 || withImpeller);
+  const rows: unknown[][] = [EXPORT_HEADER.split(",").filter(keep)];
   for (const c of curves) {
     for (const p of c.points) {
-      rows.push([c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)]);
+      const row = [c.model, c.type, c.nominalSize, n(c.speed, 1, 1), n(c.impellerDiameter, 1000, 3), n(p.flow, 3600, 6), n(p.head, 1, 6), n(p.efficiency, 100, 4), n(p.power, 1e-3, 6), n(p.npshr, 1, 6)];
+      rows.push(row.filter(keep));
     }
   }
   return toCsv(rows, { newline: "\n" });
