@@ -57,7 +57,13 @@ describe("an implausible tariff escalation is warned about, with its rule and nu
     expect(codes(0.15 + 1e-6, 2)).toEqual(["implausible-escalation"]);
     expect(lcc(0.15 + 1e-6, 2).warnings![0].message).toMatch(/^tariff escalation 15\.0001 %\/year makes year 2's energy cost 1\.15 × year 1's \(above 15 %\/year\)/);
     expect(codes(-0.15, 2)).toEqual([]);
-    expect(lcc(-0.15 - 1e-6, 2).warnings![0].message).toMatch(/^tariff escalation -15\.0001 %\/year .*\(below −15 %\/year\)/);
+    expect(lcc(-0.15 - 1e-6, 2).warnings![0].message).toMatch(/^tariff escalation −15\.0001 %\/year .*\(below −15 %\/year\)/);
+  });
+  it("a falling tariff's rate prints with the true minus sign (U+2212), as the bound beside it, never a hyphen-minus (typographic convention)", () => {
+    // −50 %/year, the lowest allowed, over 10 years: 0.5^9 = 0.00195 of year 1's (hand calculation; printed 0.002), so both rules are crossed.
+    const m = lcc(-0.5, 10).warnings![0].message;
+    expect(m).toMatch(/^tariff escalation −50\.0 %\/year makes year 10's energy cost 0\.002 × year 1's \(below −15 %\/year; less than 1\/10 of year 1's\)/);
+    expect(m).not.toMatch(/-\d/); // no hyphen-minus before any number in the sentence
   });
   it("the growth rule flips where year 50's tariff reaches 10× year 1's: e = 10^(1/49) − 1 ≈ 4.81 %/year (hand algebra)", () => {
     const e = 10 ** (1 / 49) - 1;

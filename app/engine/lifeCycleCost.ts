@@ -76,6 +76,8 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   const rateOut = Math.abs(escalation) > rate * (1 + 1e-7);
   const growthOut = g > growth * (1 + 1e-9) || g < (1 / growth) * (1 - 1e-9);
   if (!rateOut && !growthOut) return [];
+  // A falling tariff's rate with the true minus "−", as its bound beside it and other engine texts print a sign (fieldCheck.ts
+  // `pct`); fmtPctExact itself keeps its hyphen-minus, which other callers and its own tests read.
   const crossed = [
     rateOut ? `${escalation > 0 ? "above" : "below"} ${escalation > 0 ? "" : "−"}${fmtPctLimit(rate)}/year` : "",
     growthOut ? (g > growth ? `more than ${growth}× year 1's` : `less than 1/${growth} of year 1's`) : "",
@@ -83,7 +85,7 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   return [{
     code: "implausible-escalation",
     parameter: "escalation",
-    message: `tariff escalation ${fmtPctExact(escalation, [rate, -rate])}/year makes year ${years}'s energy cost ${factorText(g)} × year 1's (${crossed}): implausible as a forecast (rule, common practice from memory: within ±${fmtPctLimit(rate)}/year and year ${years}'s tariff within 1/${growth}–${growth}× year 1's); the life-cycle cost's energy part rests on it — check the escalation`,
+    message: `tariff escalation ${escalation < 0 ? "−" : ""}${fmtPctExact(Math.abs(escalation), [rate])}/year makes year ${years}'s energy cost ${factorText(g)} × year 1's (${crossed}): implausible as a forecast (rule, common practice from memory: within ±${fmtPctLimit(rate)}/year and year ${years}'s tariff within 1/${growth}–${growth}× year 1's); the life-cycle cost's energy part rests on it — check the escalation`,
   }];
 }
 
