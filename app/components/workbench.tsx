@@ -2,6 +2,7 @@
 // system's warnings and the verdict badge (the candidates table is ./CandidateTable.tsx). All inputs SI; display through ./units.
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
+import { pumpsBasis } from "~/lib/projects/power-basis";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
@@ -23,6 +24,8 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
     power: pick("power"),
+    // The combined curve's power is the duty pumps' together (hydraulics.ts): named on the chart beside it.
+    powerBasis: pumpsBasis(c.adjustment)?.together,
     npshr: pick("npshr"),
     adjusted: c.adjustment.method !== "none" || c.adjustment.arrangement !== "single",
     por: r.por ?? undefined,

@@ -4,7 +4,8 @@
 // as on a 7.5 kW motor marked non-overloading. A single pump reads as before. Real route modules and MariaDB; the
 // Tallowmere demo curves (invented, fixtures/demo/); the expected texts are built here from the frozen figures with the
 // page's own formatter, so what is checked is which basis each figure is shown with and that per pump = total ÷ duty pumps
-// (identical pumps share the duty equally: common practice).
+// (identical pumps share the duty equally: common practice). The chart draws the combined curve: its power panel, tables and
+// legend name the same basis.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { addCandidate, createProject, createSystem, getSelection, searchForSystem, selectCandidate, setCandidatePrice } from "~/lib/projects";
@@ -12,6 +13,7 @@ import { DEFAULT_ADJUSTMENT, type Adjustment } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { fmtPower, renderDeep, SI_UNITS } from "~/lib/shared/units";
+import { formatValue } from "~/components/chart/format";
 import { makeMember, type TestMember } from "./harness";
 import { csvFigures, csvHeader, figureCell, selectionPages, textOf, type SelectionPages } from "./selection-pages";
 
@@ -90,7 +92,45 @@ describe.each(["parallel", "series"] as const)("2 pumps in %s: every power figur
   });
 });
 
+/** The report's chart as read: its power panel's title, each copy of its tables (screen "Table view", then the printed one:
+ * the curves table's power column and the points table's power header, the operating point's power there) and the legend. */
+function chartPower(html: string) {
+  const title = /<g data-frame="power"><text[^>]*>(.*?)<\/text>/.exec(html)?.[1];
+  const tables = html.split('data-tables=""').slice(1).map((t) => {
+    const points = t.slice(t.indexOf('data-table="points"'));
+    const heads = (part: string) => [...part.matchAll(/<th[^>]*scope="col"[^>]*>(.*?)<\/th>/g)].map((m) => textOf(m[1]));
+    const opRow = /— operating point<\/th>((?:<td[^>]*>.*?<\/td>){5})/.exec(points)?.[1] ?? "";
+    return {
+      curvePower: heads(t.slice(0, t.indexOf('data-table="points"'))).filter((h) => h.startsWith("Power")),
+      pointsPower: heads(points).filter((h) => h.startsWith("Power")),
+      opPower: textOf([...opRow.matchAll(/<td[^>]*>(.*?)<\/td>/g)][3]?.[1] ?? ""),
+    };
+  });
+  return { title: title && textOf(title), tables, legend: textOf(html.slice(html.indexOf('data-legend=""'))) };
+}
+
+describe.each(["parallel", "series"] as const)("2 pumps in %s: the chart names its power's basis", (name) => {
+  test("power panel, the screen and printed tables and the legend: shaft power of the 2 duty pumps together, the figure shown being the total", () => {
+    const { f, pages } = got[name];
+    const c = chartPower(pages.html);
+    expect(c.title).toBe("Shaft power, 2 duty pumps together (kW)");
+    expect(c.tables).toHaveLength(2); // screen "Table view" and the printed copy
+    for (const t of c.tables) {
+      expect(t.curvePower).toEqual(["Power, 2 duty pumps together (kW)"]);
+      expect(t.pointsPower).toEqual(["Power, 2 duty pumps together (kW)"]);
+      // What it labels is the total: the figures' shaft power (all duty pumps, hydraulics.ts), in kW (1 kW = 1000 W, SI).
+      expect(t.opPower).toBe(formatValue(f.result.figures!.shaftPower! / 1000));
+    }
+    expect(c.legend).toContain(`${formatValue(f.result.figures!.shaftPower! / 1000)} kW (2 duty pumps together)`);
+  });
+});
+
 describe("a single pump reads as before", () => {
+  test("chart: power panel and tables without a basis", () => {
+    const c = chartPower(got.single.pages.html);
+    expect(c.title).toBe("Shaft power (kW)");
+    for (const t of c.tables) expect([...t.curvePower, ...t.pointsPower]).toEqual(["Power (kW)", "Power (kW)"]);
+  });
   test("report: bare figures, no basis words", () => {
     const { f, pages } = got.single;
     expect(figureCell(pages.html, "Shaft power")).toBe(p(f.result.figures!.shaftPower));

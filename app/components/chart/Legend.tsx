@@ -14,7 +14,7 @@ export function opSummary(p: DisplayPump, model: ChartModel): string | null {
   const u = model.units;
   const parts = [`${formatValue(op.flow)} ${u.flow.label} at ${formatValue(op.head)} ${u.head.label}`];
   if (op.efficiency !== null) parts.push(`η ${formatValue(op.efficiency)} %`);
-  if (op.power !== null) parts.push(`${formatValue(op.power)} ${u.power.label}`);
+  if (op.power !== null) parts.push(`${formatValue(op.power)} ${u.power.label}${p.powerBasis ? ` (${p.powerBasis})` : ""}`);
   if (op.npshr !== null) parts.push(`NPSHr ${formatValue(op.npshr)} ${u.npsh.label}`);
   return parts.join(" · ");
 }

@@ -7,6 +7,7 @@ import type { ReactNode } from "react";
 import { interpolateAt } from "./curves.ts";
 import { formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type DisplayPump } from "./model.ts";
+import { curvePowerHeading, powerHeading } from "./power-basis.ts";
 
 /** The chart's numbers as tables: curves at ~8 flows over the axis, then the marked points. */
 export function ChartTables({ model }: { model: ChartModel }) {
@@ -16,7 +17,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
   const colName: Record<string, string> = {
     head: `Head (${u.head.label})`,
     efficiency: "Eff. (%)",
-    power: `Power (${u.power.label})`,
+    power: `Power (${u.power.label})`, // one pump's; a curve of several pumps names its basis (curvePowerHeading)
     npsh: `NPSHr (${u.npsh.label})`,
   };
   const hasSystem = Boolean(model.system && model.system.design.length > 0);
@@ -107,7 +108,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
             {model.pumps.map((p) =>
               (pumpKinds(p).length ? pumpKinds(p) : (["head"] as const)).map((k) => (
                 <th key={`${p.id}-${k}`} className={th} scope="col">
-                  {colName[k]}
+                  {k === "power" ? curvePowerHeading(u.power.label, p) : colName[k]}
                 </th>
               )),
             )}
@@ -142,7 +143,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
               <th className={th} scope="col">Flow ({u.flow.label})</th>
               <th className={th} scope="col">Head ({u.head.label})</th>
               <th className={th} scope="col">Eff. (%)</th>
-              <th className={th} scope="col">Power ({u.power.label})</th>
+              <th className={th} scope="col">{powerHeading("Power", u.power.label, model.pumps)}</th>
               <th className={th} scope="col">NPSHr ({u.npsh.label})</th>
             </tr>
           </thead>

@@ -7,6 +7,7 @@ import { scaleLinear, type ScaleLinear } from "d3-scale";
 import { pumpColor } from "./colors.ts";
 import { bandBetween, cleanPoints, type BandPt } from "./curves.ts";
 import { displayUnits, flowToDisplay, seriesToDisplay, valueToDisplay, type DisplayUnits } from "./display-units.ts";
+import { powerHeading } from "./power-basis.ts";
 import { extent, niceDomain } from "./scales.ts";
 import type { DutyChartProps, Pt } from "./types.ts";
 
@@ -23,6 +24,8 @@ export interface DisplayPump {
   head: Pt[];
   efficiency: Pt[];
   power: Pt[];
+  /** What the power is for when not one pump's ("2 duty pumps together"); null for one pump. */
+  powerBasis: string | null;
   npshr: Pt[];
   por: { minFlow: number; maxFlow: number } | null;
   bep: { flow: number; head: number } | null;
@@ -91,6 +94,7 @@ export function buildChartModel(props: ChartModelInput): ChartModel {
       head: headD,
       efficiency: effD,
       power: powD,
+      powerBasis: p.powerBasis || null,
       npshr: npD,
       por:
         p.por && Number.isFinite(p.por.minFlow) && Number.isFinite(p.por.maxFlow)
@@ -216,7 +220,7 @@ export function buildChartModel(props: ChartModelInput): ChartModel {
   mk("head", `Head (${units.head.label})`, units.head.label, headH, headDom[1], headTicks);
   const subTicks = 3;
   if (hasEff) mk("efficiency", "Efficiency (%)", "%", subH, effMax, subTicks);
-  if (hasPow) mk("power", `Shaft power (${units.power.label})`, units.power.label, subH, powMax, subTicks);
+  if (hasPow) mk("power", powerHeading("Shaft power", units.power.label, pumps), units.power.label, subH, powMax, subTicks);
   if (hasNpsh) mk("npsh", `NPSH (${units.npsh.label})`, units.npsh.label, subH, npshMax, subTicks);
 
   const empty = pumps.every((p) => p.head.length === 0) && !system && npsha.length === 0;

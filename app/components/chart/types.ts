@@ -29,6 +29,11 @@ export type PumpSeries = {
   efficiency?: Pt[];
   /** Shaft power (W) vs flow. */
   power?: Pt[];
+  /**
+   * What the power curve and the operating point's power are for when not one pump's: "2 duty pumps together" (pumps in
+   * parallel or series, lib/projects/power-basis.ts). Named on the power panel, the tables and the legend; absent for one pump.
+   */
+  powerBasis?: string;
   /** NPSH required (m) vs flow. */
   npshr?: Pt[];
   /** Trimmed or slowed curve: drawn dashed. */
