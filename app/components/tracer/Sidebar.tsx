@@ -136,7 +136,7 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
             <div className="flex flex-wrap items-center gap-2">
               <label className="flex items-center gap-1">
                 <input type="radio" name="active-curve" checked={c.id === s.activeCurve} onChange={() => set((x) => ({ ...x, activeCurve: c.id, activePanel: c.panelId }))} />
-                <strong>{c.kind === "contour" ? `Contour ${c.level || "?"} %` : `Curve ${c.id}`}</strong>
+                <strong>{c.kind === "contour" ? `Contour ${c.id} · ${c.level || "?"} %` : `Curve ${c.id}`}</strong>
               </label>
               <span className="text-slate-500">{panelName(c.panelId)} · {c.points.length} points</span>
               <button type="button" className="text-slate-500 underline" onClick={() => setCurve(c.id, cleared)}>clear</button>

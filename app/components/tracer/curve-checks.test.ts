@@ -1,7 +1,8 @@
 // What the tracer refuses to send to the import until the user fixes it (curve-checks.ts): two curves
 // of one quantity with the same speed and impeller Ø (the CSV keeps one curve per key, so the other
 // would vanish), an impeller Ø left blank beside curves that have one (the importer refuses a blank
-// key cell), a speed left blank, and a curve no head curve of its key takes. Invented curves.
+// key cell), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
+// efficiency level. Invented curves.
 import { describe, expect, it } from "vitest";
 import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, importBlock } from "./curve-checks";
@@ -58,6 +59,26 @@ describe("curve checks before import", () => {
     expect(Number.isNaN(s.curves[1].impellerMm)).toBe(true);
     expect(s.activeCurve).toBe(2);
     expect(withNewCurve(s, "contour").curves[2]).toMatchObject({ id: 3, kind: "contour", closed: false });
+  });
+
+  it("flags a contour drawn without an efficiency level above zero (it was left out of the CSV without a word)", () => {
+    // Two vertical contours across the head curve at 40 and 60 m³/h (u = 300 and 400 on this invented paper).
+    const line = (id: number, u: number, level: number): Curve => ({ id, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level, closed: false, points: [{ u, v: 50 }, { u, v: 450 }] });
+    const withLevel = (level: number) => withCurves([curve(1, 1, 250, 50), line(2, 300, 70), line(3, 400, level)]);
+    const effCells = (st: TracerState) => csvOf(st, calibrations(st)).trim().split("\n").slice(1).map((r) => r.split(",")[7]).filter((x) => x !== "");
+    // With its level the two crossings give an efficiency column; without it the one crossing left gives none.
+    expect(effCells(withLevel(74)).length).toBeGreaterThan(0);
+    expect(effCells(withLevel(NaN))).toEqual([]);
+    expect(curveProblems(withLevel(74))).toEqual([]);
+    for (const blank of [NaN, 0]) {
+      expect(curveProblems(withLevel(blank))).toEqual([
+        { curveId: 3, message: "Contour 3 has no efficiency level: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it." },
+      ]);
+    }
+    expect(curveProblems(withLevel(-5))[0].message).toBe("Contour 3 has efficiency level -5 %, not above zero: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.");
+    expect(importBlock(withLevel(NaN))).toMatch(/^Fix 1 curve before import \(marked in “2 · Curves”\): Contour 3 has no efficiency level: it is left out/);
+    // A contour just added, with no points yet, waits for its level without a word.
+    expect(curveProblems(withNewCurve(withLevel(74), "contour"))).toEqual([]);
   });
 
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {

@@ -143,4 +143,30 @@ describe("efficiency inside the innermost contour a head curve crosses (invented
     console.log(`tracer BEP at the innermost contour's middle: ${rows.join("; ")}`);
     expect(rows).toHaveLength(3);
   });
+
+  it("warns for a head curve that ends inside its innermost contour, blank from its one crossing on unless the user takes the span's middle", () => {
+    // The 250 mm curve clicked from 0 only to the middle of its span inside the 82 % contour (rounded to a whole m³/h).
+    const t = truth(52);
+    const qEnd = Math.round((t.from + t.to) / 2);
+    const full = clickedHead(1, 1, 52, 250);
+    const st = { ...s, curves: [{ ...full, points: full.points.slice(0, qEnd + 1) }, ...s.curves.filter((c) => c.kind === "contour")] };
+    const ps = unreadPeaks(st, calibrations(st));
+    expect(ps.map((p) => [p.curve, p.level, p.next, p.toEnd, p.taken])).toEqual([["Curve 1", 82, null, true, false]]);
+    expect(Math.abs(ps[0].from - t.from)).toBeLessThan(0.5);
+    expect(ps[0].to).toBeCloseTo(qEnd, 6); // the last clicked point, read back through the calibration
+    expect(ps[0].midpoint).toBeCloseTo((ps[0].from + qEnd) / 2, 6);
+    expect(peakWarning(ps[0], "m3/h")).toMatch(/^Curve 1 \(250 mm, 2900 rpm\): the peak is not traced\. The curve ends inside the 82 % contour: it crosses it once, at \d+\.\d m³\/h, and from there to the curve's end at \d+\.0 m³\/h the contours say only that the efficiency is above 82 %/);
+    // Unticked: no efficiency from the crossing to the end; the engine's BEP before the contour, below 82 %.
+    const [blank] = engineCurves(st);
+    const inside = blank.points.filter((p) => p.flow * 3600 > t.from + 1);
+    expect(inside.length).toBeGreaterThan(1);
+    expect(inside.filter((p) => p.efficiency !== undefined)).toEqual([]);
+    expect(blank.curve.bep!.flow * 3600).toBeLessThan(t.from + 1);
+    expect(100 * blank.curve.bep!.efficiency).toBeLessThan(82);
+    // Ticked: the span's middle is written at 82 % and is the BEP.
+    const [taken] = engineCurves({ ...st, curves: st.curves.map((c) => (c.id === 1 ? { ...c, peakAtMidpoint: true } : c)) });
+    expect(100 * taken.curve.bep!.efficiency).toBeCloseTo(82, 6);
+    expect(taken.curve.bep!.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    expect(taken.points.filter((p) => p.efficiency !== undefined && p.flow * 3600 > ps[0].midpoint + 1e-6)).toEqual([]);
+  });
 });

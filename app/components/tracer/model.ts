@@ -1,7 +1,7 @@
 // The tracer page's working state and what is derived from it (calibrations, data points, CSV).
 // Pure TypeScript: the maths lives in app/lib/tracer; this only wires the page's choices to it.
 import {
-  axisValue, calibrate, contourGaps, crossings, efficiencyFromContours, impellerGiven, resample, toAxis, toData, tracedCsv,
+  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, impellerGiven, resample, toAxis, toData, tracedCsv,
   type AxisRef, type AxisScale, type Calibration, type Contour, type Crossing, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
 } from "~/lib/tracer";
 import type { UnreadPeak } from "~/lib/tracer/peak";
@@ -25,7 +25,7 @@ export type Curve = {
    * contour that leaves the chart, and a chord between its ends would cross curves it never meets.
    */
   closed?: boolean;
-  /** A head curve whose efficiency comes from contours: the user took the middle of the innermost contour it crosses as its BEP (peak.ts). */
+  /** A head curve whose efficiency comes from contours: the user took the middle of its span inside the innermost contour it crosses as its BEP (peak.ts). */
   peakAtMidpoint?: boolean;
 };
 export type TracerState = {
@@ -108,7 +108,14 @@ export const takeIsland = (c: Curve, points: Px[]): Curve => ({ ...c, points, cl
 export const cleared = (c: Curve): Curve => (c.kind === "contour" ? { ...c, points: [], closed: false } : { ...c, points: [] });
 
 /** What the head panel's contours say along one head curve: crossings, efficiency and the spans they leave unread (flows in the axis unit). */
-export type ContourReading = { /** x in the flow axis's unit */ crossings: Crossing[]; efficiency: XY[]; gaps: { from: number; to: number; level: number; innermost: boolean; midpoint: number }[]; levels: number[] };
+export type ContourReading = {
+  /** x in the flow axis's unit */
+  crossings: Crossing[];
+  efficiency: XY[];
+  /** `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour (contours.ts). */
+  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; midpoint: number }[];
+  levels: number[];
+};
 
 export function contourReading(s: TracerState, head: Curve, cals: Map<number, Calibration | string>): ContourReading {
   const none: ContourReading = { crossings: [], efficiency: [], gaps: [], levels: [] };
@@ -123,9 +130,11 @@ export function contourReading(s: TracerState, head: Curve, cals: Map<number, Ca
     .map((c) => ({ level: c.level, closed: c.closed === true, points: c.points.map(ax) }));
   if (!contours.length) return none;
   const back = (x: number) => axisValue.back(s.flowScale, x);
-  const xs = crossings(head.points.map(ax).sort((a, b) => a.x - b.x), contours);
+  const along = cleanPoints(head.points.map(ax));
+  const xs = crossings(along, contours);
   const levels = [...new Set(contours.map((c) => c.level))].sort((a, b) => a - b);
-  const gaps = contourGaps(xs).map((g) => ({ from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, midpoint: back((g.from + g.to) / 2) }));
+  const end = along.length ? along[along.length - 1].x : undefined;
+  const gaps = contourGaps(xs, end).map((g) => ({ from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, midpoint: back((g.from + g.to) / 2) }));
   const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
   if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
   // Read between the crossings as the engine would, at the head curve's own traced flows; nothing inside a gap.
@@ -165,7 +174,7 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     const r = contourReading(s, h, cals);
     if (r.crossings.length < 2) continue;
     for (const g of r.gaps.filter((x) => x.innermost)) {
-      out.push({ curveId: h.id, curve: `Curve ${h.id}`, impellerMm: h.impellerMm, speedRpm: h.speedRpm, level: g.level, from: g.from, to: g.to, next: r.levels.find((L) => L > g.level) ?? null, midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
+      out.push({ curveId: h.id, curve: `Curve ${h.id}`, impellerMm: h.impellerMm, speedRpm: h.speedRpm, level: g.level, from: g.from, to: g.to, toEnd: g.toEnd, next: r.levels.find((L) => L > g.level) ?? null, midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
     }
   }
   return out;

@@ -8,7 +8,8 @@
  * crossings in order of flow, read between them with the engine's interpolation (curves.ts).
  * Between two consecutive crossings of the same level the contours say only that the efficiency is
  * above (or below) that level, not what it is: inside the innermost contour a curve crosses lies its
- * peak, which no contour traces. There the efficiency is not read (`contourGaps`; null from
+ * peak, which no contour traces; a curve that crosses it once ends inside it, with its peak between that
+ * crossing and its end (or past the end). There the efficiency is not read (`contourGaps`; null from
  * `efficiencyFromContours`), never a flat plateau at the level (the engine's BEP, the first point of
  * highest efficiency, would land at the plateau's left end).
  * A contour is a closed loop only when it says so (`closed`: the island tracer's outline, or the
@@ -51,17 +52,29 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
 }
 
 /**
- * A flow span between two consecutive crossings of one level: the contours do not say the efficiency
- * there. `innermost`: the level is the highest the curve crosses (its peak lies in such a span).
+ * A flow span where the contours do not say the efficiency: between two consecutive crossings of one
+ * level, or (`toEnd`) from the last crossing to the curve's end when the curve ends inside the
+ * innermost contour it crosses. `innermost`: the level is the highest the curve crosses (its peak lies
+ * in such a span, or for `toEnd` there or past the curve's end).
  */
-export type ContourGap = { from: number; to: number; level: number; innermost: boolean };
+export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true };
 
-/** The spans between consecutive crossings (in order of flow) of the same level. */
-export function contourGaps(xs: readonly Crossing[]): ContourGap[] {
+/**
+ * The spans between consecutive crossings (in order of flow) of the same level; with `end` (the
+ * curve's last flow, same plane), also the span from the last crossing to it when that crossing is of
+ * the highest level and the curve crosses that level an odd number of times (once, usually): the
+ * curve went into that contour and did not come out.
+ */
+export function contourGaps(xs: readonly Crossing[], end?: number): ContourGap[] {
   const top = Math.max(...xs.map((p) => p.level));
   const out: ContourGap[] = [];
   for (let i = 0; i + 1 < xs.length; i++) {
     if (xs[i].level === xs[i + 1].level && xs[i + 1].x > xs[i].x) out.push({ from: xs[i].x, to: xs[i + 1].x, level: xs[i].level, innermost: xs[i].level === top });
+  }
+  const last = xs[xs.length - 1];
+  const topCount = xs.filter((p) => p.level === top).length;
+  if (end !== undefined && last && last.level === top && topCount % 2 === 1 && end > last.x + 1e-9 * (1 + Math.abs(last.x))) {
+    out.push({ from: last.x, to: end, level: top, innermost: true, toEnd: true });
   }
   return out;
 }

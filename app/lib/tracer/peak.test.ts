@@ -21,6 +21,15 @@ describe("contour gaps", () => {
     expect(contourGaps(xs)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
     expect(contourGaps([{ x: 1, y: 0, level: 70 }, { x: 2, y: 0, level: 74 }])).toEqual([]);
   });
+
+  it("include the span from a lone crossing of the highest level to the curve's end: the curve ends inside that contour", () => {
+    // Crossings 70 % at 20 and 74 % at 30, curve ends at 45 (invented): inside the 74 % contour from 30 to 45.
+    const xs = [{ x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }];
+    expect(contourGaps(xs, 45)).toEqual([{ from: 30, to: 45, level: 74, innermost: true, toEnd: true }]);
+    // Ending on the crossing, or with the last crossing of a lower level (the curve came out again): no such span.
+    expect(contourGaps(xs, 30)).toEqual([]);
+    expect(contourGaps([...xs, { x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }], 80)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
+  });
 });
 
 describe("our CSV over a gap", () => {
@@ -62,6 +71,17 @@ describe("words about the peak", () => {
     expect(peakWarning({ ...p, taken: true, next: 78, impellerMm: NaN }, "l/s")).toBe(
       "Curve 2 (2900 rpm): the peak is not traced. Inside the 74 % contour, from 30.0 to 50.0 l/s, the contours say only that the efficiency is above 74 % and below 78 %; the middle of that span, 40.0 l/s, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points), the rest of the span blank.",
     );
+  });
+
+  it("on the page, for a curve that ends inside the contour: the one crossing, the curve's end, what the engine does, and the choice", () => {
+    const end: UnreadPeak = { ...p, from: 30, to: 45, midpoint: 37.5, toEnd: true };
+    expect(peakWarning(end, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 %; the peak lies there or past the curve's end, so the efficiency there is left blank: the engine reads no efficiency past its last row before 30.0 m³/h and puts the best-efficiency point before the contour, below 74 %. Tick the box to take the middle of the span, 37.5 m³/h, as the best-efficiency point at 74 %.",
+    );
+    expect(peakWarning({ ...end, taken: true, next: 78 }, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or past the curve's end. The middle of that span, 37.5 m³/h, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency past 37.5 m³/h.",
+    );
+    expect(peakNote([end], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from 30.0 m³/h to the curve's end at 45.0 m³/h");
   });
 
   it("in the source line: short, after the file and page, cut to the column's 300 characters", () => {

@@ -6,10 +6,12 @@
  * level (and below the next level drawn, when the chart has one the curve does not reach). The CSV
  * leaves those rows blank (contours.ts, to-csv.ts): the engine then reads efficiency there from the
  * rows either side, below the level, and puts the best-efficiency point (BEP) on a row outside the
- * contour. Only when the user confirms it is the middle of that span (in axis space: the middle on
- * the paper) written as a row at the contour's level and so taken as the BEP. These sentences say
- * which, with the numbers, on the tracer page (`peakWarning`) and in the source line the revision's
- * note carries (`peakNote`, short: the line has `SOURCE_MAX` characters).
+ * contour. A curve that crosses that level once ends inside the contour: its span runs from the
+ * crossing to the curve's end, and the peak may lie past the end (`toEnd`). Only when the user
+ * confirms it is the middle of that span (in axis space: the middle on the paper) written as a row at
+ * the contour's level and so taken as the BEP. These sentences say which, with the numbers, on the
+ * tracer page (`peakWarning`) and in the source line the revision's note carries (`peakNote`, short:
+ * the line has `SOURCE_MAX` characters).
  */
 import { fmtNum } from "~/lib/shared/format";
 import { impellerGiven } from "./to-csv";
@@ -24,7 +26,10 @@ export type UnreadPeak = {
   /** The innermost level it crosses, %. */
   level: number;
   from: number;
+  /** The span's end: the next crossing of `level`, or (`toEnd`) the curve's last flow. */
   to: number;
+  /** The curve ends inside the contour: it crosses `level` once, at `from`, and its peak lies between there and its end or past it. */
+  toEnd?: boolean;
   /** The lowest level above `level` drawn on the panel (the peak is below it), or null. */
   next: number | null;
   /** The middle of the span (on the paper). */
@@ -43,19 +48,38 @@ const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` :
 
 /** The tracer page's warning for one curve. */
 export function peakWarning(p: UnreadPeak, flowUnit: string): string {
+  if (p.toEnd) return endWarning(p, flowUnit);
   const u = flowUnitText(flowUnit);
   const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
   const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
   return p.taken
-    ? `${head}; the middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`}), the rest of the span blank.`
+    ? `${head}; the middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}), the rest of the span blank.`
     : `${head}, so the efficiency there is left blank: the engine reads it below ${typed(p.level)} % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+}
+
+const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`);
+
+/**
+ * The warning for a curve that ends inside its innermost contour: no crossing closes the span, so the
+ * efficiency column ends before the contour (the engine reads none past its last row and puts the
+ * best-efficiency point before the contour, below the level), and the peak may lie past the curve's end.
+ */
+function endWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const head =
+    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ends inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(p.from)} ${u}, ` +
+    `and from there to the curve's end at ${fmtNum(p.to)} ${u} the contours say only that the efficiency is ${bound(p)}; the peak lies there or past the curve's end`;
+  return p.taken
+    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency past ${fmtNum(p.midpoint)} ${u}.`
+    : `${head}, so the efficiency there is left blank: the engine reads no efficiency past its last row before ${fmtNum(p.from)} ${u} and puts the best-efficiency point before the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
 }
 
 /** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
 export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
   if (!ps.length) return "";
   const u = flowUnitText(flowUnit);
+  const span = (p: UnreadPeak) => (p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}` : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`);
   const one = (p: UnreadPeak) =>
-    `${keyText(p)} above ${typed(p.level)} % at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}${p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : ""}`;
+    `${keyText(p)} above ${typed(p.level)} % ${span(p)}${p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : ""}`;
   return `peak not traced, efficiency blank inside the innermost contour: ${ps.map(one).join("; ")}`;
 }
