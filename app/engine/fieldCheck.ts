@@ -19,7 +19,7 @@ import { gradePower, type GradePowerCheck } from "./gradePower.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { fmtPctExact, fmtPctLimit } from "./quantityText.ts";
+import { fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
 
 /** An acceptance grade: allowed deviations as fractions, [below, above]. */
 export interface ToleranceGrade {
@@ -239,7 +239,7 @@ function powerClause(measured: boolean, p: GradePowerCheck | null): string {
 /** The limits a grade misses, with their numbers: "power limit (+12.0 % against +4 % allowed)". */
 function missedLimits(p: GradePowerCheck): string {
   const said: string[] = [];
-  const pct = (x: number, a: number) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), [a])}`;
+  const pct = (x: number, a: number) => fmtPctSignedExact(x, [a], true);
   if (p.power?.pass === false) said.push(`power limit (${pct(p.power.deviation!, p.power.allowed)} against +${fmtPctLimit(p.power.allowed)} allowed)`);
   if (p.efficiency?.pass === false) said.push(`efficiency limit (${pct(p.efficiency.deviation!, p.efficiency.allowed)} against ${p.efficiency.allowed === 0 ? "0 %" : `−${fmtPctLimit(p.efficiency.allowed)}`} allowed)`);
   return said.join(" and ");
@@ -300,7 +300,7 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
       headDeviation, flowDeviation, powerDeviation, flowBand: null, grades: verdicts, bestGrade: best, verdict, dutyDeviation,
       message: best ? `Delivered point is within grade ${best} of the curve${powerClause(input.measuredPower !== undefined, bestPower)}`
         : missedOnPower ? `Delivered point meets grade ${missedOnPower.id} on flow and head but misses its ${missedLimits(missedOnPower.power!)}`
-        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctExact(headDeviation, grades.flatMap((g) => [-g.head[0], g.head[1]]))} from curve)` : ""}`,
+        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctSignedExact(headDeviation, grades.flatMap((g) => [g.head[0], g.head[1]]))} from curve)` : ""}`,
       warnings };
   }
 

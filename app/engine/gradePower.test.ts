@@ -8,6 +8,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, fieldCheck, G0, gradePower, TOLERANCE_GRADES, type Fluid } from "./index.ts";
+import { fmtPctSignedExact } from "./quantityText.ts";
 
 const RHO = 998;
 const grade = (id: string) => TOLERANCE_GRADES.find((g) => g.id === id)!;
@@ -84,4 +85,21 @@ describe("fieldCheck: a grade is met on flow/head AND power AND efficiency", () 
     expect(r.bestGrade).toBe("1B");
     expect(r.message).toBe("Delivered point is within grade 1B of the curve, power and efficiency included");
   });
+
+  it("a point 10 % below the curve's head: outside every grade, the deviation printed with the true minus sign (U+2212)", () => {
+    const r = fieldCheck({ curve, fluid, suction: gauge(0), discharge: gauge(0.9 * HC * RHO * G0), measuredFlow: Q, grades: [grade("1B"), grade("2B")] });
+    expect(r.verdict).toBe("outside-tolerance");
+    expect(r.message).toBe("Delivered point is outside every grade checked (head −10.0 % from curve)"); // 0.9 × 25 m against 25 m
+  });
 });
+
+describe("fmtPctSignedExact", () => {
+  it("the true minus, a plus when asked, the decimals apart from the limits by size", () => {
+    expect(fmtPctSignedExact(-0.0301, [0.03])).toBe("−3.01 %");
+    expect(fmtPctSignedExact(0.031, [0.03])).toBe("3.1 %");
+    expect(fmtPctSignedExact(0.031, [0.03], true)).toBe("+3.1 %");
+    expect(fmtPctSignedExact(-0.03, [0.03])).toBe("−3.0 %"); // at the limit it reads as the limit
+    expect(fmtPctSignedExact(Number.NaN)).toBe("—");
+  });
+});
+

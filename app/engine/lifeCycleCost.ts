@@ -20,7 +20,7 @@
  * over 50 years, 17.9 %/year over 15.)
  */
 import { EngineInputError, requireFinite, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { fmtNumExact, fmtPctExact, fmtPctLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
 
 export const LCC_SOURCE = "present-value method (ISO 15686-5, from memory; common practice for pump life-cycle cost): LCC = purchase + Σ C₁(1+e)^(t−1)/(1+d)^t, end-of-year costs; maintenance and disposal not included";
 
@@ -76,8 +76,7 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   const rateOut = Math.abs(escalation) > rate * (1 + 1e-7);
   const growthOut = g > growth * (1 + 1e-9) || g < (1 / growth) * (1 - 1e-9);
   if (!rateOut && !growthOut) return [];
-  // A falling tariff's rate with the true minus "−", as its bound beside it and other engine texts print a sign (fieldCheck.ts
-  // `pct`); fmtPctExact itself keeps its hyphen-minus, which other callers and its own tests read.
+  // A falling tariff's rate with the true minus "−", as its bound beside it (fmtPctSignedExact).
   const crossed = [
     rateOut ? `${escalation > 0 ? "above" : "below"} ${escalation > 0 ? "" : "−"}${fmtPctLimit(rate)}/year` : "",
     growthOut ? (g > growth ? `more than ${growth}× year 1's` : `less than 1/${growth} of year 1's`) : "",
@@ -85,7 +84,7 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   return [{
     code: "implausible-escalation",
     parameter: "escalation",
-    message: `tariff escalation ${escalation < 0 ? "−" : ""}${fmtPctExact(Math.abs(escalation), [rate])}/year makes year ${years}'s energy cost ${factorText(g)} × year 1's (${crossed}): implausible as a forecast (rule, common practice from memory: within ±${fmtPctLimit(rate)}/year and year ${years}'s tariff within 1/${growth}–${growth}× year 1's); the life-cycle cost's energy part rests on it — check the escalation`,
+    message: `tariff escalation ${fmtPctSignedExact(escalation, [rate])}/year makes year ${years}'s energy cost ${factorText(g)} × year 1's (${crossed}): implausible as a forecast (rule, common practice from memory: within ±${fmtPctLimit(rate)}/year and year ${years}'s tariff within 1/${growth}–${growth}× year 1's); the life-cycle cost's energy part rests on it — check the escalation`,
   }];
 }
 

@@ -151,6 +151,18 @@ export function fmtPctExact(x: number | null | undefined, against: readonly numb
 }
 
 /**
+ * A signed fraction as a percentage with the true minus sign "−" (U+2212) and, with `plus`, a "+" for the rest; the
+ * decimals as {@link fmtPctExact}, apart from the sizes in `against` (compared by size): "−3.01 %", "+12.0 %".
+ * @param x the fraction (dimensionless)
+ * @param against values it must not read as (fractions; their sign is ignored)
+ * @param plus write "+" before a value ≥ 0 (a flag, unitless)
+ */
+export function fmtPctSignedExact(x: number | null | undefined, against: readonly number[] = [], plus = false): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  return `${x < 0 ? "−" : plus ? "+" : ""}${fmtPctExact(Math.abs(x), against.map(Math.abs))}`;
+}
+
+/**
  * A threshold as a percentage with the decimals it needs (at most 3, no trailing zeros): a tolerance or a
  * range end as typed, e.g. 0.025 → "2.5 %", 0.011 → "1.1 %", 0.1 → "10 %".
  * @param x the fraction (dimensionless)

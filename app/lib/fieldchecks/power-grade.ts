@@ -5,7 +5,7 @@
 // efficiency the contractor entered (shaft = input × η_motor); without it power and efficiency are not judged, and
 // the check says so. Pure: evaluate.ts stores `PowerGrade` with the result, the page and the e-mail read the sentences.
 import type { GradeLimitCheck, GradePowerCheck } from "~/engine";
-import { fmtPctExact, fmtPctLimit, qtPair, qt } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, qtPair, qt } from "~/engine/quantityText";
 import type { PowerSI } from "./form";
 
 /** What a check judged of its grade's power and efficiency limits, stored with its result. */
@@ -42,7 +42,7 @@ export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: Power
 }
 
 /** A deviation with its sign, never reading as the allowance it is judged against (a fraction ≥ 0). */
-const signed = (x: number, allowed: number) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), [allowed])}`;
+const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], true);
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 

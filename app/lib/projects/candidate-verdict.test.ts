@@ -191,7 +191,7 @@ describe("the typed duty against the system (3 %, common practice)", () => {
     expect(inSI(at(1.031).message)).toMatch(/differs by 3\.1 % from the system's head at 100 m³\/h/);
     // Just past the threshold the percentage never reads as the 3 % it was judged against (toFixed(1) said "3.0 %").
     expect(inSI(at(1.0301).message)).toMatch(/differs by 3\.01 % from the system's head/);
-    expect(inSI(at(0.9699).message)).toMatch(/differs by -3\.01 % from the system's head/);
+    expect(inSI(at(0.9699).message)).toMatch(/differs by −3\.01 % from the system's head/); // the true minus sign, U+2212
     expect(at(1.031).governs).toMatch(/Speed and trim solves and the verdicts use the system's head .* the pump search uses the typed duty head/);
   });
 });

@@ -32,7 +32,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 export * from "./system-input";
 export * from "./candidate-input";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
-import { fmtNumExact, fmtPctExact, qt, qtExact, qtPair } from "~/engine/quantityText";
+import { fmtNumExact, fmtPctSignedExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
 
@@ -96,7 +96,7 @@ export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prep
   const message = difference === null
     ? `The system needs no pump head at ${q}: its head there is ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve), so gravity alone delivers the duty flow; the typed duty head ${qt("head", input.duty.head)} is more than the system uses. Check the levels, or whether a pump is needed at this flow.`
     : differs
-    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${fmtPctExact(difference, [-DUTY_HEAD_THRESHOLD, DUTY_HEAD_THRESHOLD])} from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
+    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${fmtPctSignedExact(difference, [DUTY_HEAD_THRESHOLD])} from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
     : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
   const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
   return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
