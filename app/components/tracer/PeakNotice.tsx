@@ -1,8 +1,9 @@
 // The peak the contours do not trace (app/lib/tracer/peak.ts): one warning per head curve whose
 // efficiency comes from contours, with the box that takes the middle of its innermost contour (or, for
-// a curve that ends inside it, of the span from its crossing to the curve's end) as the best-efficiency
-// point. Unticked, those rows stay blank. The same facts go with the import, short, into the source
-// line and so into the revision's note.
+// a curve that ends inside it, of the span from its crossing to the curve's end; for one that starts
+// inside it, of the span from its start to its crossing) as the best-efficiency point. Unticked, those
+// rows stay blank. A curve that crosses one contour once gets its warning without a box: it has no span.
+// The same facts go with the import, short, into the source line and so into the revision's note.
 import { peakWarning, type UnreadPeak } from "~/lib/tracer/peak";
 
 export function PeakNotice(props: { peaks: UnreadPeak[]; flowUnit: string; onTake: (curveId: number, taken: boolean) => void }) {
@@ -12,10 +13,12 @@ export function PeakNotice(props: { peaks: UnreadPeak[]; flowUnit: string; onTak
       {props.peaks.map((p, i) => (
         <div key={`${p.curveId}-${i}`} className="space-y-1">
           <p data-testid={`peak-warning-${p.curveId}`}>{peakWarning(p, props.flowUnit)}</p>
-          <label className="flex items-center gap-1">
-            <input type="checkbox" data-testid={`peak-take-${p.curveId}`} checked={p.taken} onChange={(e) => props.onTake(p.curveId, e.target.checked)} />
-            {`Take the middle of ${p.toEnd ? "the span inside " : ""}the ${String(+p.level.toFixed(2))} % contour as ${p.curve}’s best-efficiency point`}
-          </label>
+          {p.lone ? null : (
+            <label className="flex items-center gap-1">
+              <input type="checkbox" data-testid={`peak-take-${p.curveId}`} checked={p.taken} onChange={(e) => props.onTake(p.curveId, e.target.checked)} />
+              {`Take the middle of ${p.toEnd || p.fromStart ? "the span inside " : ""}the ${String(+p.level.toFixed(2))} % contour as ${p.curve}’s best-efficiency point`}
+            </label>
+          )}
         </div>
       ))}
     </div>

@@ -38,6 +38,24 @@ describe("an iso-efficiency line clicked by hand is open unless the user closes 
     expect(tracedSets(s, cals)[0].curves.efficiency).toBeUndefined();
   });
 
+  it("says so on the page: the one contour, its level and the one flow; the CSV has no efficiency for the curve", () => {
+    const s = state([headPanel(1, "m")], [head, arm]);
+    const cals = calibrations(s);
+    const ps = unreadPeaks(s, cals);
+    expect(ps.map((p) => [p.curve, p.level, p.lone, p.taken, +p.from.toFixed(2)])).toEqual([["Curve 1", 70, true, false, 81.96]]);
+    expect(peakWarning(ps[0], "m3/h")).toMatch(/^Curve 1 \(200 mm, 2900 rpm\): the efficiency is not read\. The curve crosses one contour only, the 70 % contour, once, at 82\.0 m³\/h: the efficiency is known at that one flow only/);
+    expect(peakNote(ps, "m3/h")).toBe("efficiency at one contour crossing only, none written: 200 mm, 2900 rpm 70 % at 82.0 m³/h");
+    // What the warning says of the engine: no efficiency written, so none, no power, no BEP...
+    const [c] = analyseCsv(csvOf(s, cals)).result.curveSets;
+    expect(c.points.filter((p) => p.efficiency !== undefined)).toEqual([]);
+    const curve = createPumpCurve({ points: c.points });
+    expect([curve.efficiency, curve.bep, efficiencyAt(curve, c.points[5].flow)]).toEqual([null, null, null]);
+    expect(curve.warnings.map((w) => w.code)).toContain("no-efficiency");
+    // ...and one value alone would make no efficiency curve yet be taken as the BEP (pumpCurve.ts: column needs two rows).
+    const one = createPumpCurve({ points: c.points.map((p, i) => (i === 5 ? { ...p, efficiency: 0.7 } : p)) });
+    expect([one.efficiency, efficiencyAt(one, c.points[5].flow), one.bep?.flow]).toEqual([null, null, c.points[5].flow]);
+  });
+
   it("closed by the user's choice, the chord's crossing (75.87 m³/h) counts too", () => {
     const s = state([headPanel(1, "m")], [head, { ...arm, closed: true }]);
     expect(contourReading(s, head, calibrations(s)).crossings.map((x) => +x.x.toFixed(2))).toEqual([75.87, 81.96]);
@@ -168,5 +186,31 @@ describe("efficiency inside the innermost contour a head curve crosses (invented
     expect(100 * taken.curve.bep!.efficiency).toBeCloseTo(82, 6);
     expect(taken.curve.bep!.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
     expect(taken.points.filter((p) => p.efficiency !== undefined && p.flow * 3600 > ps[0].midpoint + 1e-6)).toEqual([]);
+  });
+
+  it("warns for a head curve that starts inside its innermost contour, blank up to its one crossing unless the user takes the span's middle", () => {
+    // The 250 mm curve clicked from the middle of its span inside the 82 % contour (a whole m³/h) to 95.
+    const t = truth(52);
+    const qStart = Math.round((t.from + t.to) / 2);
+    const full = clickedHead(1, 1, 52, 250);
+    const st = { ...s, curves: [{ ...full, points: full.points.slice(qStart) }, ...s.curves.filter((c) => c.kind === "contour")] };
+    const ps = unreadPeaks(st, calibrations(st));
+    expect(ps.map((p) => [p.curve, p.level, p.next, p.fromStart, p.toEnd, p.taken])).toEqual([["Curve 1", 82, null, true, false, false]]);
+    expect(ps[0].from).toBeCloseTo(qStart, 6); // the first clicked point, read back through the calibration
+    expect(Math.abs(ps[0].to - t.to)).toBeLessThan(0.5);
+    expect(ps[0].midpoint).toBeCloseTo((qStart + ps[0].to) / 2, 6);
+    expect(peakWarning(ps[0], "m3/h")).toMatch(/^Curve 1 \(250 mm, 2900 rpm\): the peak is not traced\. The curve starts inside the 82 % contour: it crosses it once, at \d+\.\d m³\/h, and from the curve's start at \d+\.0 m³\/h to there the contours say only that the efficiency is above 82 %/);
+    // Unticked: no efficiency from the start to the crossing; the engine's BEP after the contour, below 82 %.
+    const [blank] = engineCurves(st);
+    const inside = blank.points.filter((p) => p.flow * 3600 < t.to - 1);
+    expect(inside.length).toBeGreaterThan(1);
+    expect(inside.filter((p) => p.efficiency !== undefined)).toEqual([]);
+    expect(blank.curve.bep!.flow * 3600).toBeGreaterThan(t.to - 1);
+    expect(100 * blank.curve.bep!.efficiency).toBeLessThan(82);
+    // Ticked: the span's middle is written at 82 % and is the BEP, nothing before it.
+    const [taken] = engineCurves({ ...st, curves: st.curves.map((c) => (c.id === 1 ? { ...c, peakAtMidpoint: true } : c)) });
+    expect(100 * taken.curve.bep!.efficiency).toBeCloseTo(82, 6);
+    expect(taken.curve.bep!.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    expect(taken.points.filter((p) => p.efficiency !== undefined && p.flow * 3600 < ps[0].midpoint - 1e-3)).toEqual([]); // the CSV writes flow to 4 decimals
   });
 });

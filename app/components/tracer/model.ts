@@ -112,8 +112,8 @@ export type ContourReading = {
   /** x in the flow axis's unit */
   crossings: Crossing[];
   efficiency: XY[];
-  /** `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour (contours.ts). */
-  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; midpoint: number }[];
+  /** `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour; `fromStart`: from the curve's start, inside it, to the first crossing (contours.ts). */
+  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; midpoint: number }[];
   levels: number[];
 };
 
@@ -134,7 +134,10 @@ export function contourReading(s: TracerState, head: Curve, cals: Map<number, Ca
   const xs = crossings(along, contours);
   const levels = [...new Set(contours.map((c) => c.level))].sort((a, b) => a - b);
   const end = along.length ? along[along.length - 1].x : undefined;
-  const gaps = contourGaps(xs, end).map((g) => ({ from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, midpoint: back((g.from + g.to) / 2) }));
+  const start = along.length ? along[0].x : undefined;
+  const gaps = contourGaps(xs, end, start).map((g) => ({
+    from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, fromStart: g.fromStart === true, midpoint: back((g.from + g.to) / 2),
+  }));
   const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
   if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
   // Read between the crossings as the engine would, at the head curve's own traced flows; nothing inside a gap.
@@ -162,7 +165,10 @@ function panelsOf(s: TracerState) {
   return { heads, quantityOf, unitOf };
 }
 
-/** The innermost contour spans of the head curves whose efficiency comes from contours (one per span). */
+/**
+ * The innermost contour spans of the head curves whose efficiency comes from contours (one per span),
+ * and (`lone`) a head curve that crosses one contour once: its efficiency is known at that flow only.
+ */
 export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | string>): UnreadPeak[] {
   const out: UnreadPeak[] = [];
   const { heads, quantityOf } = panelsOf(s);
@@ -172,9 +178,15 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     seen.add(keyOf(h));
     if (s.curves.some((c) => c.kind === "curve" && quantityOf(c) === "efficiency" && keyOf(c) === keyOf(h))) continue;
     const r = contourReading(s, h, cals);
+    const who = { curveId: h.id, curve: `Curve ${h.id}`, impellerMm: h.impellerMm, speedRpm: h.speedRpm };
+    const next = (level: number) => r.levels.find((L) => L > level) ?? null;
+    if (r.crossings.length === 1) {
+      const [x] = r.crossings;
+      out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, next: next(x.level), midpoint: x.x, taken: false });
+    }
     if (r.crossings.length < 2) continue;
     for (const g of r.gaps.filter((x) => x.innermost)) {
-      out.push({ curveId: h.id, curve: `Curve ${h.id}`, impellerMm: h.impellerMm, speedRpm: h.speedRpm, level: g.level, from: g.from, to: g.to, toEnd: g.toEnd, next: r.levels.find((L) => L > g.level) ?? null, midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
+      out.push({ ...who, level: g.level, from: g.from, to: g.to, toEnd: g.toEnd, fromStart: g.fromStart, next: next(g.level), midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
     }
   }
   return out;

@@ -9,7 +9,8 @@
  * Between two consecutive crossings of the same level the contours say only that the efficiency is
  * above (or below) that level, not what it is: inside the innermost contour a curve crosses lies its
  * peak, which no contour traces; a curve that crosses it once ends inside it, with its peak between that
- * crossing and its end (or past the end). There the efficiency is not read (`contourGaps`; null from
+ * crossing and its end (or past the end), or starts inside it, with its peak between its start (or before
+ * it) and that crossing. There the efficiency is not read (`contourGaps`; null from
  * `efficiencyFromContours`), never a flat plateau at the level (the engine's BEP, the first point of
  * highest efficiency, would land at the plateau's left end).
  * A contour is a closed loop only when it says so (`closed`: the island tracer's outline, or the
@@ -54,18 +55,23 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
 /**
  * A flow span where the contours do not say the efficiency: between two consecutive crossings of one
  * level, or (`toEnd`) from the last crossing to the curve's end when the curve ends inside the
- * innermost contour it crosses. `innermost`: the level is the highest the curve crosses (its peak lies
- * in such a span, or for `toEnd` there or past the curve's end).
+ * innermost contour it crosses, or (`fromStart`) from the curve's start to the first crossing when it
+ * starts inside it. `innermost`: the level is the highest the curve crosses (its peak lies in such a
+ * span, or for `toEnd` there or past the curve's end, for `fromStart` there or before its start).
  */
-export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true };
+export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true };
 
 /**
  * The spans between consecutive crossings (in order of flow) of the same level; with `end` (the
  * curve's last flow, same plane), also the span from the last crossing to it when that crossing is of
  * the highest level and the curve crosses that level an odd number of times (once, usually): the
- * curve went into that contour and did not come out.
+ * curve went into that contour and did not come out. With `start` (the curve's first flow), the
+ * mirror: the span from it to the first crossing when that crossing is of the highest level, crossed
+ * an odd number of times, and the curve crosses some contour after it (a lone crossing says nothing of
+ * which side is inside) — unless the span to the end was taken already (an odd count leaves the curve
+ * inside at one end only; with the first and the last crossing both of that level the end is kept).
  */
-export function contourGaps(xs: readonly Crossing[], end?: number): ContourGap[] {
+export function contourGaps(xs: readonly Crossing[], end?: number, start?: number): ContourGap[] {
   const top = Math.max(...xs.map((p) => p.level));
   const out: ContourGap[] = [];
   for (let i = 0; i + 1 < xs.length; i++) {
@@ -75,6 +81,10 @@ export function contourGaps(xs: readonly Crossing[], end?: number): ContourGap[]
   const topCount = xs.filter((p) => p.level === top).length;
   if (end !== undefined && last && last.level === top && topCount % 2 === 1 && end > last.x + 1e-9 * (1 + Math.abs(last.x))) {
     out.push({ from: last.x, to: end, level: top, innermost: true, toEnd: true });
+  }
+  const first = xs[0];
+  if (start !== undefined && xs.length >= 2 && first.level === top && topCount % 2 === 1 && !out.some((g) => g.toEnd) && start < first.x - 1e-9 * (1 + Math.abs(first.x))) {
+    out.unshift({ from: start, to: first.x, level: top, innermost: true, fromStart: true });
   }
   return out;
 }

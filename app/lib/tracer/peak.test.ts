@@ -30,6 +30,17 @@ describe("contour gaps", () => {
     expect(contourGaps(xs, 30)).toEqual([]);
     expect(contourGaps([...xs, { x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }], 80)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
   });
+
+  it("include the span from the curve's start to a lone first crossing of the highest level: the curve starts inside that contour", () => {
+    // Curve starts at 35 (invented), crosses 74 % at 50 and 70 % at 60: inside the 74 % contour from 35 to 50.
+    const xs = [{ x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }];
+    expect(contourGaps(xs, 80, 35)).toEqual([{ from: 35, to: 50, level: 74, innermost: true, fromStart: true }]);
+    // Starting on the crossing, a first crossing of a lower level (the curve went in and came out), or a
+    // lone crossing (which side is inside is not said): no such span.
+    expect(contourGaps(xs, 80, 50)).toEqual([]);
+    expect(contourGaps([{ x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }, { x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }], 80, 0)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
+    expect(contourGaps([{ x: 50, y: 0, level: 74 }], 80, 35).filter((g) => g.fromStart)).toEqual([]);
+  });
 });
 
 describe("our CSV over a gap", () => {
@@ -82,6 +93,30 @@ describe("words about the peak", () => {
       "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or past the curve's end. The middle of that span, 37.5 m³/h, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency past 37.5 m³/h.",
     );
     expect(peakNote([end], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from 30.0 m³/h to the curve's end at 45.0 m³/h");
+  });
+
+  it("on the page, for a curve that starts inside the contour: the curve's start, the one crossing, what the engine does, and the choice", () => {
+    // Invented: the curve starts at 35 m³/h inside the 74 % contour and crosses it at 50; middle 42.5.
+    const start: UnreadPeak = { ...p, from: 35, to: 50, midpoint: 42.5, fromStart: true };
+    expect(peakWarning(start, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 %; the peak lies there or before the curve's start, so the efficiency there is left blank: the engine reads no efficiency before its first row past 50.0 m³/h and puts the best-efficiency point after the contour, below 74 %. Tick the box to take the middle of the span, 42.5 m³/h, as the best-efficiency point at 74 %.",
+    );
+    expect(peakWarning({ ...start, taken: true, next: 78 }, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or before the curve's start. The middle of that span, 42.5 m³/h, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency before 42.5 m³/h.",
+    );
+    expect(peakNote([start], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from the curve's start at 35.0 m³/h to 50.0 m³/h");
+  });
+
+  it("on the page, for a curve that crosses one contour once: the level, the one flow, and what the engine would do with one value", () => {
+    // Invented: one crossing of the 70 % contour at 81.96 m³/h, no other contour crossed.
+    const lone: UnreadPeak = { ...p, level: 70, from: 81.96, to: 81.96, midpoint: 81.96, next: 74, lone: true };
+    expect(peakWarning(lone, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the efficiency is not read. The curve crosses one contour only, the 70 % contour, once, at 82.0 m³/h: the efficiency is known at that one flow only, and one value makes no efficiency curve (the engine reads efficiency, and shaft power from it, only between two rows or more, yet would take a lone value as the best-efficiency point, at a contour crossing). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.",
+    );
+    expect(peakNote([lone], "m3/h")).toBe("efficiency at one contour crossing only, none written: 160 mm, 2900 rpm 70 % at 82.0 m³/h");
+    expect(peakNote([p, lone], "m3/h")).toBe(
+      "peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h; efficiency at one contour crossing only, none written: 160 mm, 2900 rpm 70 % at 82.0 m³/h",
+    );
   });
 
   it("in the source line: short, after the file and page, cut to the column's 300 characters", () => {

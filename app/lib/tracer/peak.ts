@@ -7,7 +7,9 @@
  * leaves those rows blank (contours.ts, to-csv.ts): the engine then reads efficiency there from the
  * rows either side, below the level, and puts the best-efficiency point (BEP) on a row outside the
  * contour. A curve that crosses that level once ends inside the contour: its span runs from the
- * crossing to the curve's end, and the peak may lie past the end (`toEnd`). Only when the user
+ * crossing to the curve's end, and the peak may lie past the end (`toEnd`); one that starts inside it,
+ * the mirror (`fromStart`). A curve that crosses one contour once (`lone`) has its efficiency at that
+ * one flow only, which makes no efficiency curve: the CSV writes none for it. Only when the user
  * confirms it is the middle of that span (in axis space: the middle on the paper) written as a row at
  * the contour's level and so taken as the BEP. These sentences say which, with the numbers, on the
  * tracer page (`peakWarning`) and in the source line the revision's note carries (`peakNote`, short:
@@ -30,6 +32,10 @@ export type UnreadPeak = {
   to: number;
   /** The curve ends inside the contour: it crosses `level` once, at `from`, and its peak lies between there and its end or past it. */
   toEnd?: boolean;
+  /** The curve starts inside the contour (`from`: its first flow): it crosses `level` once, at `to`, and its peak lies between its start and there or before its start. */
+  fromStart?: boolean;
+  /** The curve crosses one contour only, once, at `from` (= `to`): no span, no box; its efficiency is known at that flow only. */
+  lone?: boolean;
   /** The lowest level above `level` drawn on the panel (the peak is below it), or null. */
   next: number | null;
   /** The middle of the span (on the paper). */
@@ -48,7 +54,9 @@ const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` :
 
 /** The tracer page's warning for one curve. */
 export function peakWarning(p: UnreadPeak, flowUnit: string): string {
+  if (p.lone) return loneWarning(p, flowUnit);
   if (p.toEnd) return endWarning(p, flowUnit);
+  if (p.fromStart) return startWarning(p, flowUnit);
   const u = flowUnitText(flowUnit);
   const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
   const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
@@ -74,12 +82,49 @@ function endWarning(p: UnreadPeak, flowUnit: string): string {
     : `${head}, so the efficiency there is left blank: the engine reads no efficiency past its last row before ${fmtNum(p.from)} ${u} and puts the best-efficiency point before the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
 }
 
+/**
+ * The mirror of `endWarning`, for a curve that starts inside its innermost contour: the efficiency
+ * column starts after the crossing (the engine reads none before its first row there and puts the
+ * best-efficiency point after the contour, below the level), and the peak may lie before the start.
+ */
+function startWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const head =
+    `${p.curve} (${keyText(p)}): the peak is not traced. The curve starts inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(p.to)} ${u}, ` +
+    `and from the curve's start at ${fmtNum(p.from)} ${u} to there the contours say only that the efficiency is ${bound(p)}; the peak lies there or before the curve's start`;
+  return p.taken
+    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency before ${fmtNum(p.midpoint)} ${u}.`
+    : `${head}, so the efficiency there is left blank: the engine reads no efficiency before its first row past ${fmtNum(p.to)} ${u} and puts the best-efficiency point after the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+}
+
+/**
+ * The warning for a curve that crosses one contour once: one efficiency value. The engine's efficiency
+ * (and so shaft power) is an interpolant through two rows or more (pumpCurve.ts `column`), yet its
+ * best-efficiency point is the row of highest efficiency given: a lone value would put the BEP on a
+ * contour crossing. The CSV writes none (model.ts `tracedSets`), so the engine has no efficiency.
+ */
+function loneWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  return (
+    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${typed(p.level)} % contour, once, at ${fmtNum(p.from)} ${u}: ` +
+    `the efficiency is known at that one flow only, and one value makes no efficiency curve (the engine reads efficiency, and shaft power from it, only between two rows or more, ` +
+    `yet would take a lone value as the best-efficiency point, at a contour crossing). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or ` +
+    `best-efficiency point for it. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
+  );
+}
+
 /** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
 export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
-  if (!ps.length) return "";
   const u = flowUnitText(flowUnit);
-  const span = (p: UnreadPeak) => (p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}` : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`);
+  const span = (p: UnreadPeak) =>
+    p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}`
+    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}`
+    : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`;
   const one = (p: UnreadPeak) =>
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : ""}`;
-  return `peak not traced, efficiency blank inside the innermost contour: ${ps.map(one).join("; ")}`;
+  const spans = ps.filter((p) => !p.lone), lone = ps.filter((p) => p.lone);
+  return [
+    spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",
+    lone.length ? `efficiency at one contour crossing only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
+  ].filter(Boolean).join("; ");
 }
