@@ -160,8 +160,7 @@ export const preparedCacheStats = () => ({ size: preparedCache.size, keys: prepa
 export const clearSearchCaches = () => { preparedCache.clear(); verdictCache.clear(); clearKeptRevisions(); };
 
 /** The engine options the page searches with (shared with the benchmark, so both time the same search). */
-export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>, filters: SearchFilters): SearchOptions {
-  const npshaAtDuty = npshaAtDutyOf(input, evaluation);
+export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>, filters: SearchFilters, npshaAtDuty = npshaAtDutyOf(input, evaluation)): SearchOptions {
   return {
     methods: filters.methods?.length ? filters.methods : ["direct", "trim", "speed"],
     npshAvailable: npshaAtDuty != null ? Math.max(0, npshaAtDuty) : undefined, // below zero (a suction lift past the barometric head): no pump with an NPSHr passes, as at zero
@@ -208,7 +207,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const prepared = opts.uncached ? await buildPreparedSearch(open, filters) : await preparedSearch(open, filters);
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
   const own = new Set(open.filter((o) => o.own).map((o) => o.libraryId));
-  const res = searchDuty(prepared.index, { flow: system.input.duty.flow, head: system.input.duty.head }, searchOptionsFor(system.input, evaluation, filters));
+  const npshaAtDuty = npshaAtDutyOf(system.input, evaluation); // judged by the search, and shown with its count
+  const res = searchDuty(prepared.index, { flow: system.input.duty.flow, head: system.input.duty.head }, searchOptionsFor(system.input, evaluation, filters, npshaAtDuty));
   // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
   const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
   let duplicates = 0;
@@ -276,7 +276,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     /** NPSH over the design point and the band's corners as the workbench judges it (the engine's `npshMargin` is at the duty only). */
     npsh,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty: npshaAtDutyOf(system.input, evaluation), hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "viscosity-uncorrected", "short", "no-operating-point", "outside-catalogue"] as const;
