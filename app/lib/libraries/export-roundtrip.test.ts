@@ -6,6 +6,7 @@ import { closeDb } from "@db/client.server";
 import { analyseStored, createLibrary, curvesToCsv, getUpload, importUpload, libraryCurves, storeUpload, type LibraryCurveSet, type Viewer } from "./index";
 import { analyseCsv } from "~/lib/import";
 import { call, makeMember, type TestMember } from "~/test/harness";
+import { viewerOfUser } from "~/lib/projects/test-kit";
 import { demoLibraries } from "../../../fixtures/demo";
 import * as exportCsv from "~/routes/libraries.$id.export-csv";
 
@@ -13,7 +14,7 @@ let d: TestMember;
 let viewer: Viewer;
 beforeAll(async () => {
   d = await makeMember("distributor");
-  viewer = { userId: d.userId, workspace: { id: d.workspaceId, name: "w", slug: "w", plan: "free" }, role: "distributor" };
+  viewer = await viewerOfUser(d.userId, "distributor");
 });
 afterAll(() => closeDb());
 
