@@ -55,8 +55,8 @@ const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` :
 /** The tracer page's warning for one curve. */
 export function peakWarning(p: UnreadPeak, flowUnit: string): string {
   if (p.lone) return loneWarning(p, flowUnit);
-  if (p.toEnd) return endWarning(p, flowUnit);
-  if (p.fromStart) return startWarning(p, flowUnit);
+  if (p.toEnd) return edgeWarning(p, flowUnit, "end");
+  if (p.fromStart) return edgeWarning(p, flowUnit, "start");
   const u = flowUnitText(flowUnit);
   const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
   const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
@@ -68,33 +68,25 @@ export function peakWarning(p: UnreadPeak, flowUnit: string): string {
 const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`);
 
 /**
- * The warning for a curve that ends inside its innermost contour: no crossing closes the span, so the
- * efficiency column ends before the contour (the engine reads none past its last row and puts the
- * best-efficiency point before the contour, below the level), and the peak may lie past the curve's end.
+ * The warning for a curve that ends (`toEnd`) or starts (`fromStart`) inside its innermost contour: no crossing closes
+ * the span on that side, so the efficiency column stops at the contour (the engine reads none past its last row, or
+ * before its first, and puts the best-efficiency point outside the contour, below the level), and the peak may lie past
+ * the curve's end or before its start. One text for both sides, its words mirrored.
  */
-function endWarning(p: UnreadPeak, flowUnit: string): string {
+function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): string {
   const u = flowUnitText(flowUnit);
+  const end = side === "end";
+  const crossing = end ? p.from : p.to;
+  const span = end
+    ? `from there to the curve's end at ${fmtNum(p.to)} ${u}`
+    : `from the curve's start at ${fmtNum(p.from)} ${u} to there`;
   const head =
-    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ends inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(p.from)} ${u}, ` +
-    `and from there to the curve's end at ${fmtNum(p.to)} ${u} the contours say only that the efficiency is ${bound(p)}; the peak lies there or past the curve's end`;
+    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(crossing)} ${u}, ` +
+    `and ${span} the contours say only that the efficiency is ${bound(p)}; the peak lies there or ${end ? "past the curve's end" : "before the curve's start"}`;
+  const beyond = end ? "past" : "before";
   return p.taken
-    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency past ${fmtNum(p.midpoint)} ${u}.`
-    : `${head}, so the efficiency there is left blank: the engine reads no efficiency past its last row before ${fmtNum(p.from)} ${u} and puts the best-efficiency point before the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
-}
-
-/**
- * The mirror of `endWarning`, for a curve that starts inside its innermost contour: the efficiency
- * column starts after the crossing (the engine reads none before its first row there and puts the
- * best-efficiency point after the contour, below the level), and the peak may lie before the start.
- */
-function startWarning(p: UnreadPeak, flowUnit: string): string {
-  const u = flowUnitText(flowUnit);
-  const head =
-    `${p.curve} (${keyText(p)}): the peak is not traced. The curve starts inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(p.to)} ${u}, ` +
-    `and from the curve's start at ${fmtNum(p.from)} ${u} to there the contours say only that the efficiency is ${bound(p)}; the peak lies there or before the curve's start`;
-  return p.taken
-    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency before ${fmtNum(p.midpoint)} ${u}.`
-    : `${head}, so the efficiency there is left blank: the engine reads no efficiency before its first row past ${fmtNum(p.to)} ${u} and puts the best-efficiency point after the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency ${beyond} ${fmtNum(p.midpoint)} ${u}.`
+    : `${head}, so the efficiency there is left blank: the engine reads no efficiency ${beyond} its ${end ? "last row before" : "first row past"} ${fmtNum(crossing)} ${u} and puts the best-efficiency point ${end ? "before" : "after"} the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
 }
 
 /**
