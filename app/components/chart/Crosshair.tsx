@@ -9,7 +9,7 @@ import type { DisplayUnits } from "./display-units.ts";
 import { formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type PanelLayout } from "./model.ts";
 import { clamp, r1 } from "./paths.ts";
-import { readoutRows, type ReadoutRow } from "./readout.ts";
+import { readoutPowerNote, readoutRows, type ReadoutRow } from "./readout.ts";
 import { placeReadout } from "./readout-place.ts";
 
 /** Readout column titles per panel kind, e.g. "H m", "η %". */
@@ -24,9 +24,9 @@ export function readoutColumnTitles(u: DisplayUnits): Record<string, string> {
 
 const READOUT_FONT = 11;
 const READOUT_ROW = READOUT_FONT + 5;
-/** Height of the SVG readout box for a number of curve rows (+ flow and column-header rows). */
-export function readoutBoxHeight(rows: number): number {
-  return READOUT_ROW * (rows + 2) + 8;
+/** Height of the SVG readout box for a number of curve rows (+ flow and column-header rows, + the power note's line when there is one). */
+export function readoutBoxHeight(rows: number, note = false): number {
+  return READOUT_ROW * (rows + 2 + (note ? 1 : 0)) + 8;
 }
 
 export function Crosshair({
@@ -54,8 +54,9 @@ export function Crosshair({
   const nameW = Math.min(160, Math.max(64, ...rows.map((r) => r.label.length * charW + (r.badge ? 18 : 0)))) + 16;
   const colW = (k: string) => (k === "head" ? 62 : model.compact ? 46 : 52);
   const cols = kinds.map((k) => ({ k, w: colW(k) }));
-  const boxW = nameW + cols.reduce((s, c) => s + c.w, 0) + 10;
-  const boxH = readoutBoxHeight(rows.length);
+  const note = readoutPowerNote(model, hidden);
+  const boxW = Math.max(nameW + cols.reduce((s, c) => s + c.w, 0) + 10, note ? note.length * charW + 16 : 0);
+  const boxH = readoutBoxHeight(rows.length, note !== null);
   const { bx, by } = placeReadout(model, hidden, cx, boxW, boxH);
   const hdr = readoutColumnTitles(model.units);
   const flowText = `${formatValue(flow)} ${model.units.flow.label}`;
@@ -111,6 +112,11 @@ export function Crosshair({
         {rows.map((row, ri) => (
           <ReadoutLine key={row.key} row={row} x={bx} y={by + rowH * (ri + 3)} nameW={nameW} cols={cols} charW={charW} />
         ))}
+        {note && (
+          <text data-mark="readout-power-note" x={r1(bx + 8)} y={r1(by + rowH * (rows.length + 3))} fill={C.tick}>
+            {note}
+          </text>
+        )}
       </g>}
     </g>
   );

@@ -19,7 +19,7 @@ import { Legend } from "./Legend.tsx";
 import { HeadMarks, PanelMarks, PorShading } from "./Marks.tsx";
 import { buildChartModel } from "./model.ts";
 import { EmptyMessage, FlowAxisTitle, PanelFrame } from "./PanelFrame.tsx";
-import { readoutRows, readoutText } from "./readout.ts";
+import { readoutPowerNote, readoutRows, readoutText } from "./readout.ts";
 import { NpshaCurve, NpshaLabel, PumpCurves, SystemBand, SystemCurve, type LayerProps } from "./Series.tsx";
 import { ChartTables } from "./TableView.tsx";
 import type { DutyChartProps } from "./types.ts";
@@ -63,7 +63,7 @@ export function DutyChart(props: DutyChartProps) {
   const last = panels[panels.length - 1];
   // The readout box sits inside the head panel only when it leaves most of the panel clear;
   // otherwise (phones, short charts, many curves) it is an HTML table under the chart.
-  const boxInSvg = !model.compact && readoutBoxHeight(readoutRows(model, 0).length) <= 0.6 * panels[0].height;
+  const boxInSvg = !model.compact && readoutBoxHeight(readoutRows(model, 0).length, readoutPowerNote(model) !== null) <= 0.6 * panels[0].height;
   const plotBottom = last.top + last.height;
 
   return (

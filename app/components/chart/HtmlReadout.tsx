@@ -5,7 +5,7 @@
  */
 import { formatValue } from "./format.ts";
 import type { ChartModel } from "./model.ts";
-import { readoutRows } from "./readout.ts";
+import { readoutPowerNote, readoutRows } from "./readout.ts";
 import { Swatch } from "./Swatches.tsx";
 import { readoutColumnTitles } from "./Crosshair.tsx";
 
@@ -15,6 +15,7 @@ export function HtmlReadout({ model, flow, hidden }: { model: ChartModel; flow: 
   const u = model.units;
   const rows = readoutRows(model, flow ?? Number.NaN, hidden);
   const hdr = readoutColumnTitles(u);
+  const note = readoutPowerNote(model, hidden);
   const td = "px-1 py-0.5 text-right tabular-nums";
   return (
     <div className="mt-1 overflow-x-auto print:hidden" data-readout="html" aria-hidden="true">
@@ -54,6 +55,7 @@ export function HtmlReadout({ model, flow, hidden }: { model: ChartModel; flow: 
           ))}
         </tbody>
       </table>
+      {note && <p className="px-1 text-xs text-slate-600" data-readout="power-note">{note}</p>}
     </div>
   );
 }

@@ -7,6 +7,9 @@ import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { DutyChart } from "./DutyChart.tsx";
 import { buildChartModel } from "./model.ts";
+import { Crosshair } from "./Crosshair.tsx";
+import { HtmlReadout } from "./HtmlReadout.tsx";
+import { readoutPowerNote, readoutText } from "./readout.ts";
 import { linePump } from "./test-pumps.ts";
 import type { DutyChartProps, PumpSeries } from "./types.ts";
 import { UNIT_SYSTEMS } from "../../engine/units.ts";
@@ -46,5 +49,37 @@ describe("the tables (screen and print) and the legend say it beside the numbers
     expect(html).toContain("at 30.0 m · 30.0 kW</span>"); // pump a: bare, last in its line
     expect(html).toContain("30.0 kW (2 duty pumps together)");
     expect(html.split("(2 duty pumps together)")).toHaveLength(2); // once: pump a's reads bare
+  });
+});
+
+describe("the cursor readout names its power basis (the box, the compact table and the spoken line)", () => {
+  const both = [pump("a"), pump("b", { powerBasis: "2 duty pumps together" })];
+  const model = (pumps: PumpSeries[]) => buildChartModel(props(pumps));
+  const box = (pumps: PumpSeries[], hidden = new Set<string>()) =>
+    renderToStaticMarkup(createElement("svg", null, createElement(Crosshair, { model: model(pumps), flow: 100, hidden, plotBottom: 300, box: true })));
+  const compact = (pumps: PumpSeries[], hidden = new Set<string>()) => renderToStaticMarkup(createElement(HtmlReadout, { model: model(pumps), flow: 100, hidden }));
+  it("one pump each: no note anywhere, as before", () => {
+    expect(readoutPowerNote(model([pump("a"), pump("b")]))).toBeNull();
+    expect(box([pump("a"), pump("b")])).not.toContain("readout-power-note");
+    expect(compact([pump("a"), pump("b")])).not.toContain("power-note");
+    expect(readoutText(model([pump("a"), pump("b")]), 100)).not.toContain("duty pumps");
+  });
+  it("a curve of 2 duty pumps beside one pump's: each curve's basis by its badge, in the box, the table and the spoken line", () => {
+    const note = "P (kW) — curve 1: one pump; curve 2: 2 duty pumps together";
+    expect(readoutPowerNote(model(both))).toBe(note);
+    expect(box(both)).toContain(`>${note}</text>`);
+    expect(compact(both)).toContain(`>${note}</p>`);
+    expect(readoutText(model(both), 100).endsWith(`${note}.`)).toBe(true);
+  });
+  it("the one-pump curve hidden: the shown curves' shared basis", () => {
+    expect(readoutPowerNote(model(both), new Set(["a"]))).toBe("P, 2 duty pumps together (kW)");
+    expect(box(both, new Set(["a"]))).toContain(">P, 2 duty pumps together (kW)</text>");
+  });
+  it("the several-pump curve hidden: no note (the readout shows one pump's power only)", () => {
+    expect(readoutPowerNote(model(both), new Set(["b"]))).toBeNull();
+  });
+  it("the box grows a line for the note", () => {
+    const h = (s: string) => Number(/data-mark="readout"[^>]*><rect[^>]*height="([\d.]+)"/.exec(s)?.[1]);
+    expect(h(box(both)) - h(box([pump("a"), pump("b")]))).toBe(16); // one readout row: font 11 + 5 (Crosshair.tsx)
   });
 });

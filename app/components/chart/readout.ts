@@ -5,6 +5,7 @@
 import { interpolateAt } from "./curves.ts";
 import { formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type PanelKind } from "./model.ts";
+import { powerHeading } from "./power-basis.ts";
 
 export interface ReadoutRow {
   key: string;
@@ -72,6 +73,19 @@ export function readoutRows(model: ChartModel, flow: number, hidden: ReadonlySet
   return rows;
 }
 
+/**
+ * What the readout's power column is for, when a shown curve is of several duty pumps together (their power summed):
+ * "P, 2 duty pumps together (kW)", or by curve when the shown curves differ; null when every shown power curve is one
+ * pump's (the column title "P kW" says it all) or no power panel is drawn. The power panel's title says the same for
+ * every curve drawn; this follows the curves the readout shows (hidden ones left out).
+ */
+export function readoutPowerNote(model: ChartModel, hidden: ReadonlySet<string> = new Set()): string | null {
+  if (!model.panels.some((p) => p.kind === "power")) return null;
+  const shown = model.pumps.filter((p) => !hidden.has(p.id)).map((p) => ({ badge: p.badge, power: pumpSeries(p, "power"), powerBasis: p.powerBasis }));
+  if (!shown.some((p) => p.power.length > 0 && p.powerBasis)) return null;
+  return powerHeading("P", model.units.power.label, shown);
+}
+
 /** One-line text of the readout, for the screen-reader live region. */
 export function readoutText(model: ChartModel, flow: number, hidden: ReadonlySet<string> = new Set()): string {
   const u = model.units;
@@ -89,5 +103,6 @@ export function readoutText(model: ChartModel, flow: number, hidden: ReadonlySet
       .map((k) => `${nameOf[k]} ${formatValue(r.values[k])}${r.values[k] == null ? "" : " " + unitOf[k]}`);
     return `${r.label}: ${vals.join(", ")}`;
   });
-  return `Flow ${formatValue(flow)} ${u.flow.label}. ${parts.join(". ")}.`;
+  const note = readoutPowerNote(model, hidden);
+  return `Flow ${formatValue(flow)} ${u.flow.label}. ${parts.join(". ")}.${note ? ` ${note}.` : ""}`;
 }
