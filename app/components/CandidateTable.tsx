@@ -4,7 +4,7 @@
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
-import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText } from "./candidate-figures";
+import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { energyRows } from "~/components/CandidateEnergy";
@@ -60,6 +60,13 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
         <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
           {npshJudgedRange(n) ?? range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
           {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — {npshLowestText(unitSystem, n)} ({n.status})</span> : null}
+          {n && n.status === "unknown" && npshUnjudgedText(n) ? (
+            <span className="font-semibold text-duty-ink">
+              {" — "}
+              {n.at ? `${npshLowestText(unitSystem, n)} among the judged; ` : ""}
+              {npshUnjudgedText(n)} (unknown)
+            </span>
+          ) : null}
         </span>
       );
     }],

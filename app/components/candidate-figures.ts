@@ -55,6 +55,16 @@ export function npshLowestText(units: UnitChoice, n: NpshJudgement): string {
 }
 
 /**
+ * The points the NPSH rule names but could not judge, with why: "not judged at least lift, new pipe (no operating point)";
+ * null when every point was judged (or the selection was frozen before it was kept). They leave the status unknown.
+ * @param n the judgement (`npshOverBand`)
+ */
+export function npshUnjudgedText(n: NpshJudgement | null | undefined): string | null {
+  const u = n?.unjudged ?? [];
+  return u.length ? `not judged at ${u.map((p) => `${p.at} (${p.why})`).join("; ")}` : null;
+}
+
+/**
  * Every point NPSH was judged at, for the cell's title: "design point 1.63; least lift, new pipe 1.48; …"
  * (NPSHa in the reader's units where NPSHr is unknown); empty for selections frozen before the corners were kept.
  * @param units the reader's units

@@ -10,7 +10,7 @@ import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
-import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText } from "~/components/candidate-figures";
+import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
@@ -86,7 +86,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       npshMargin: r.npshMargin,
       // NPSH as the workbench judges it: the design point and the band's corners, the lowest deciding.
       // (each point's figure is on the candidate page: npshPointsText for 25 rows cost about 1 ms a page here)
-      npsh: r.npsh ? { status: r.npsh.status, range: npshJudgedRange(r.npsh), lowest: r.npsh.status === "unknown" ? null : npshLowestText(sys, r.npsh) } : null,
+      npsh: r.npsh ? { status: r.npsh.status, range: npshJudgedRange(r.npsh), lowest: r.npsh.status === "unknown" ? null : npshLowestText(sys, r.npsh), unjudged: r.npsh.status === "unknown" ? npshUnjudgedText(r.npsh) : null } : null,
       shaftPower: r.shaftPower,
       reason: r.reason,
       library: r.library,
@@ -254,6 +254,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         <span>
                           {r.npsh.range ?? "—"}
                           {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}> — {r.npsh.lowest} ({r.npsh.status})</span> : null}
+                          {r.npsh.unjudged ? <span className="font-semibold text-duty-ink"> — {r.npsh.unjudged} (unknown)</span> : null}
                         </span>
                       ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
                     </td>

@@ -117,6 +117,12 @@ export type NpshJudgement = {
   requiredMargin?: number;
   /** Every point judged, the design point first; absent in selections frozen before the band's four corners were judged. */
   judgedAt?: NpshPoint[];
+  /**
+   * Points the rule names that could not be judged: no operating point there (the pump runs off its curve), or no NPSHr
+   * at that flow (the published NPSHr curve ends before it). Any of them leaves the status "unknown" unless a judged point
+   * already shows a cavitation risk. Absent in selections frozen before it was kept.
+   */
+  unjudged?: { at: string; why: string }[];
 };
 
 /**
@@ -130,8 +136,12 @@ export type NpshJudgement = {
  */
 export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number): NpshJudgement {
   const where = corners.map((c) => c.at).join("; ");
-  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where}); below 1, or NPSHa at or below zero whatever the pump: cavitation risk`;
+  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where}); below 1, or NPSHa at or below zero whatever the pump: cavitation risk; a point with no operating point or no NPSHr leaves it unknown, unless another already shows a cavitation risk`;
   const judgedAt = design ? [design, ...corners] : [...corners];
+  const unjudged = [
+    ...(design ? [] : [{ at: "design point", why: "no operating point" }]),
+    ...judgedAt.filter((p) => p.marginRatio == null && !(p.available != null && p.available <= 0)).map((p) => ({ at: p.at, why: p.flow == null ? "no operating point" : "no NPSHr at that flow" })),
+  ];
   let lowest: NpshPoint | null = null;
   let zero: NpshPoint | null = null;
   for (const p of judgedAt) {
@@ -141,8 +151,10 @@ export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoi
   // NPSHa ≤ 0 decides only where no ratio already says cavitation (with NPSHr known there, its ratio is ≤ 0 < 1).
   const byZero = zero !== null && !(lowest !== null && lowest.marginRatio! < 1);
   const decides = byZero ? zero : lowest;
-  const status: NpshStatus = byZero ? "cavitation-risk" : npshStatus(lowest?.marginRatio ?? null, requiredMargin);
-  return { status, marginRatio: decides?.marginRatio ?? null, at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt };
+  const judged: NpshStatus = byZero ? "cavitation-risk" : npshStatus(lowest?.marginRatio ?? null, requiredMargin);
+  // "ok" or a low margin over part of the band is no conclusion for the rest: a point not judged leaves it unknown.
+  const status: NpshStatus = judged !== "cavitation-risk" && unjudged.length > 0 ? "unknown" : judged;
+  return { status, marginRatio: decides?.marginRatio ?? null, at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt, unjudged };
 }
 
 /** A band point's NPSH as judged (`npshOverBand`). */

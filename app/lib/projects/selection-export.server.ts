@@ -72,6 +72,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("npsh_lowest_at", f.result.npsh?.at ?? null, "");
   add("npsh_available_at_lowest", f.result.npsh?.available ?? null, "m");
   add("npsh_rule", f.result.npsh?.rule ?? null, "");
+  add("npsh_not_judged_at", f.result.npsh?.unjudged?.map((p) => `${p.at} (${p.why})`).join("; ") ?? null, "");
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
   add("motor_rating", fig?.motor?.rating ?? null, "W");
