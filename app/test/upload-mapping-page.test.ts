@@ -89,3 +89,17 @@ describe("mapping page: P_w, Förderleistung, p.u. and a motor's output", () => 
     expect(selected(selectOf(html, "Meaning of Motor output kW"))).toBe("power"); // source: definition (a motor's output is its shaft power, P2)
   });
 });
+
+// A motor's power with no input word ("Motor kW") is taken to be its rated output, as vendor catalogues write it, and a rated
+// power ("Rated power kW") a nameplate figure too (review of 2026-12-03: they were P1 and shaft power). The rows say "assumed".
+describe("mapping page: a motor's power and a rated power, assumed ratings", () => {
+  const html = render("Model,Speed rpm,Flow m3/h,Head m,Motor kW,Rated power kW\nA,2900,0,20,7.5,7.5\nA,2900,10,19,7.5,7.5\nA,2900,20,17,7.5,7.5\n");
+  it("“Motor kW” is left out, and the row says the motor's rated output was assumed (was: P1)", () => {
+    expect(selected(selectOf(html, "Meaning of Motor kW"))).toBe("ignore"); // source: rated-power.ts
+    expect(html).toMatch(/data-testid="motor-power">assumed: the motor&#x27;s rated output \(its size, one figure for all points\), not the shaft power \(P2\) at each point; if it is the shaft power at each point, choose “Shaft power”: (?:<!-- -->)?left out/); // source: importer rule
+  });
+  it("“Rated power kW” is left out as a rating, assumed (was: shaft power)", () => {
+    expect(selected(selectOf(html, "Meaning of Rated power kW"))).toBe("ignore"); // source: rated-power.ts
+    expect(html).toMatch(/data-testid="rated-power">assumed: a rating \(one figure for all points\)/); // source: importer rule
+  });
+});

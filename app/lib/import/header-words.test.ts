@@ -61,12 +61,98 @@ describe("a motor's output is shaft power (P2)", () => {
   );
 
   it.each([
-    ["Motor kW", "input"], // source: the motor's power, not rated: P1 as before (input-power.ts)
+    ["Motor kW", "motor"], // source: vendor catalogues' motor kW is the rating (common practice); was "input" (P1), see below
     ["Rated input power P1 (kW)", "input"], // source: P1 named
     ["Rated electrical power motor", "input"], // source: electrical named
     ["Motor output kW", null], // source: definition (a motor's output is the pump's shaft power)
   ])("“%s” keeps its kind (%s)", (header, kind) => {
     expect(headerPowerKind(header)).toBe(kind); // source: see the row
+  });
+});
+
+// Vendor catalogues write the motor's rated output (nameplate kW) under "Motor power"/"Motor kW" (common practice), and a
+// "rated" power is a nameplate figure too. "Motor kW" was read as the motor's electrical input (P1); "Rated power kW" was mapped
+// to shaft power, so a 7.5 kW rating became 7.5 kW at every point of the curve (review of 2026-12-03).
+describe("a motor's power and a rated power are ratings, assumed", () => {
+  const rating = ["0,20,7.5", "10,19,7.5", "20,17,7.5"]; // invented: one 7.5 kW figure on every row, as a rating is written
+
+  it.each(["Motor power", "Motor kW", "Motor power kW", "Motor power (hp)", "Motorleistung", "Puissance moteur"])(
+    "“%s” is left out as the motor's rated output, assumed, with the other readings (was: P1)",
+    (header) => {
+      const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, rating));
+      expect(headerPowerKind(header)).toBe("motor"); // source: common practice (catalogues' motor kW is the nameplate rating); was "input"
+      expect(a.mapping.columns[4].field).toBe("ignore"); // source: a rating is not the shaft power at each point (common practice)
+      expect(warnings(a).map((p) => [p.row, p.column])).toEqual([[1, header]]); // source: importer rule (one warning on the header line when no power column is mapped)
+      const reason = warnings(a)[0].reason;
+      expect(reason).toContain(`“${header}” is left unmapped, assumed: the motor's rated output (its nameplate size, one figure for all points)`); // source: rated-power.ts (names the header and what is assumed)
+      expect(reason).toContain("Rule: a power header with a motor word (motor, Motor…, moteur) and no word for the input (P1, input, electrical)"); // source: importer rule (states its rule)
+      expect(reason).toContain("a 7.5 kW motor reads 7.5 at shutoff and at the last point"); // source: a rating is one figure for all points (common practice)
+      expect(reason).toContain("It may also be the motor's electrical input power (P1) at each point"); // source: the other reading (P1 is not shaft power either)
+      expect(reason).toContain("then choose “Shaft power” for the column"); // source: importer rule (what to do to change it)
+      expect(reason).not.toContain("its header names the motor's electrical input power (P1)"); // source: the old conclusion (P1) is no longer stated as fact
+      expect(a.result.curveSets[0].points.every((p) => p.power === undefined)).toBe(true); // source: no power column mapped
+    },
+  );
+
+  it.each(["Rated power kW", "Rated power", "Nominal power (kW)", "Nennleistung", "Nameplate kW", "Rated output kW"])(
+    "“%s” is left out as a rating, assumed (was: shaft power, or hydraulic for “Rated output”)",
+    (header) => {
+      const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, rating));
+      expect(headerPowerKind(header)).toBe("rated"); // source: a rated power is a nameplate figure (common practice); was null (shaft power)
+      expect(a.mapping.columns[4].field).toBe("ignore"); // source: same
+      const reason = warnings(a)[0].reason;
+      expect(reason).toContain(`“${header}” is left unmapped, assumed: a rating (a nameplate figure, one for all points`); // source: rated-power.ts
+      expect(reason).toContain("Rule: a power header with rated, nominal, nameplate, Nenn… or Bemessung… and no word for the input"); // source: importer rule (states its rule)
+      expect(reason).toContain("“P2” or “shaft” in the header would make it the pump's shaft power"); // source: same (how to change it in the file)
+      expect(reason).toContain("It may also be the pump's shaft power (P2) at each point, if the values change along the curve: then choose “Shaft power”"); // source: the other reading
+      expect(a.result.curveSets[0].points.every((p) => p.power === undefined)).toBe(true); // source: no power column mapped (was 7500 W at every point)
+    },
+  );
+
+  it("beside a pump efficiency column, a rated power no longer makes the curve's power 7.5 kW at every point", () => {
+    // Invented points: η 0, 55, 70 % at Q 0, 10, 20 m³/h and H 20, 19, 17 m; “Rated power kW” 7.5 on each row.
+    const a = analyseCsv(file("Flow m3/h,Head m,Eff %,Rated power kW", ["0,20,0,7.5", "10,19,55,7.5", "20,17,70,7.5"]));
+    expect(fields(a).slice(2)).toEqual(["flow", "head", "efficiency", "ignore"]); // source: a rating is not the shaft power at each point (common practice)
+    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([undefined, undefined, undefined]); // source: was 7500 W at each point (7.5 kW, SI prefixes)
+    expect(a.result.problems.filter((p) => p.code === "inconsistent")).toEqual([]); // source: was an η-vs-ρgQH/P warning on the points with flow (7.5 kW against 0.52 kW hydraulic)
+    expect(warnings(a)[0].reason).toContain("worked out from the pump efficiency column “Eff %” instead"); // source: definition of pump efficiency (P2 = ρgQH/η)
+  });
+
+  it("mapped to shaft power by hand, a rated power is read as the user says, with a warning that says how to undo it", () => {
+    const text = file("Flow m3/h,Head m,Rated power kW", rating);
+    const a = analyseCsv(text, byHand(text, 4, { field: "power", unit: "kW" }));
+    expect(warnings(a).map((p) => p.column)).toEqual(["Rated power kW"]); // source: importer rule (a hand-made or saved mapping is warned too)
+    const reason = warnings(a)[0].reason;
+    expect(reason).toContain("“Rated power kW” is mapped to shaft power, but its header reads as a rating"); // source: rated-power.ts
+    expect(reason).toContain("If its values are the same at every point of a curve, they are a rating: set the column to “— ignore —”"); // source: same
+    expect(a.result.curveSets[0].points[1].power).toBe(7500); // source: the user's mapping (7.5 kW)
+  });
+
+  it.each<[string, string | null, string]>([
+    ["Motor rating kW", "rated-motor", "ignore"], // source: “rating” beside a motor word names the rating (was "input", P1)
+    ["Motor size kW", "rated-motor", "ignore"], // source: same (was "input")
+    ["Motor power input", "input", "ignore"], // source: input named: P1 (common practice)
+    ["Motor power P1", "input", "ignore"], // source: P1 named
+    ["Motor electrical power", "input", "ignore"], // source: electrical named
+    ["Rated input power P1 (kW)", "input", "ignore"], // source: P1 named, as before
+    ["Rated power P2", null, "power"], // source: P2 named: shaft power (common practice)
+    ["Rated shaft power", null, "power"], // source: shaft named
+    ["Rated absorbed power", null, "power"], // source: absorbed power is shaft power in pump data (common practice)
+    ["Motor output kW", null, "power"], // source: a motor's output is the pump's shaft power (definition), as before
+  ])("“%s”: kind %s, field %s", (header, kind, field) => {
+    expect(headerPowerKind(header)).toBe(kind); // source: see the row
+    expect(analyseCsv(file(`Flow m3/h,Head m,${header}`, ["0,20,1.0", "10,19,1.2", "20,17,1.4"])).mapping.columns[4].field).toBe(field); // source: see the row
+  });
+
+  it("a P2 column beside “Motor kW” is the power column, and the motor column needs no warning", () => {
+    const a = analyseCsv(file("Flow m3/h,Head m,Motor kW,P2 kW", ["0,20,7.5,4.0", "10,19,7.5,5.0", "20,17,7.5,6.0"]));
+    expect(fields(a).slice(4)).toEqual(["ignore", "power"]); // source: common practice (P2 is shaft power)
+    expect(a.result.problems).toEqual([]); // source: importer rule (P2 mapped: nothing to say of the left-out column)
+  });
+
+  it("the mapping page's notes say what was assumed and what to choose instead", () => {
+    expect(powerKindNote("motor", "ignore")).toBe("assumed: the motor's rated output (its size, one figure for all points), not the shaft power (P2) at each point; if it is the shaft power at each point, choose “Shaft power”: left out"); // source: rated-power.ts
+    expect(powerKindNote("rated", "power")).toBe("assumed: a rating (one figure for all points), not the shaft power (P2) at each point; if it is the shaft power at each point, choose “Shaft power”: see the problems below"); // source: same
   });
 });
 

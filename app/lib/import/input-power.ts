@@ -7,7 +7,10 @@
  * Pump data sheets write P1 for the electrical input and P2 for the shaft power (common practice);
  * "absorbed power" / "power absorbed" alone is the pump's shaft power there (common practice), unless the
  * header also says electrical; so is a motor's output ("Motor output kW": what the motor's shaft gives the pump's).
- * A motor's rated output ("Rated motor output kW", "Nennleistung Motor") is its size: left out too, with its own message (RATED_MOTOR_POWER).
+ * A motor's rated output ("Rated motor output kW", "Nennleistung Motor", "Motor rating kW") is its size: left out too, with its own message (RATED_MOTOR_POWER).
+ * A motor's power with no word for input, output or rating ("Motor power", "Motor kW", "Motorleistung") is taken to be its rating,
+ * as in vendor catalogues, and a rated power with no motor word ("Rated power kW", "Nennleistung") a rating too: both assumed, left
+ * out, and said so with the other readings (inputPowerKind "motor", namesRatedPower; what is said of them is in rated-power.ts).
  * Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
  */
 
@@ -18,7 +21,10 @@ const SHAFT = /\bp\s*-?\s*2\b|shaft|\bbrake\b|\bbhp\b|\bbkw\b|welle|\barbre\b/;
 /** Words that name the electrical side outright: electrical, "el.", kWel, kWe, Pel, wire, mains, supply, consumption, drawn. */
 const ELECTRICAL_WORDS =
   /\belec|elektr|électr|\bel\b|\bkw\s*-?\s*el\b|\bkwe\b|\bp\s*-?\s*el\b|\bwire\b|\bmains\b|\bsupply\b|\bgrid\b|consum|verbrauch|consommation|\bdrawn?\b/;
-/** The motor words ("Motor kW", "Motorleistung", "moteur"): a motor's power is read as its electrical input, unless it is its output or rating. */
+/**
+ * The motor words ("Motor kW", "Motorleistung", "moteur"): not the pump's shaft power unless the header names the motor's output.
+ * inputPowerKind tells the electrical input (with P1, input or electrical words) from a rating (named or, with no such word, assumed).
+ */
 const MOTOR = /\bmot(?:or|eur)|\bmot\b/;
 /** Electrical words and the motor words. */
 const ELECTRICAL = new RegExp(`${ELECTRICAL_WORDS.source}|${MOTOR.source}`);
@@ -30,10 +36,15 @@ const ELECTRICAL = new RegExp(`${ELECTRICAL_WORDS.source}|${MOTOR.source}`);
  */
 const MOTOR_OUTPUT = /\bmot(?:or|eur)?\b.*\b(?:output|utile)\b|\b(?:output|utile)\b.*\bmot(?:or|eur)?\b|\bmotor\s*-?\s*abgabe|abgabeleistung.*\bmot(?:or|eur)?\b/;
 const RATED = /\brated\b|\bnominal|\bnameplate\b|\bnenn|\bbemessung/;
-/** "Motornennleistung": the rating inside one German word. */
-const NENNLEISTUNG = /nennleistung/;
+/** "Motornennleistung", "Bemessungsleistung": the rating inside one German word. */
+const NENNLEISTUNG = /nennleistung|bemessungsleistung/;
+/** Beside a motor word, "rating" and "size" name its rating too ("Motor rating kW", "Motor size kW"). */
+const MOTOR_RATING = /\brating\b|\bsize\b/;
+/** "Absorbed power", "puissance absorbée": the pump's shaft power in pump data (common practice). */
+const ABSORBED = /absorb/;
+const namesRating = (norm: string) => RATED.test(norm) || NENNLEISTUNG.test(norm);
 /** P2, shaft or brake words, or a motor's (not rated) output. */
-const namesShaft = (norm: string) => SHAFT.test(norm) || (MOTOR_OUTPUT.test(norm) && !RATED.test(norm));
+const namesShaft = (norm: string) => SHAFT.test(norm) || (MOTOR_OUTPUT.test(norm) && !namesRating(norm) && !MOTOR_RATING.test(norm));
 /** The pump's own power input (the power its driver transmits to it: shaft power, ISO 9906 wording, from memory). */
 const PUMP_INPUT = /\bpump\s+(?:power\s+)?input\b|\binput\s+(?:power\s+)?(?:to|of)\s+(?:the\s+)?pump\b/;
 /** "input" in English, German (Eingangsleistung, Leistungsaufnahme) and French (puissance d'entrée). */
@@ -60,13 +71,24 @@ export function namesInputPower(norm: string): boolean {
 }
 
 /**
- * Of a header that namesInputPower: "rated-motor" when it names a motor's rating ("Rated motor output kW", "Nennleistung Motor",
- * "Motor rated power", "Nominal motor power", "Motornennleistung": motor words and rated/nominal/nameplate/Nenn…, and neither P1,
- * "input" nor an electrical word), else "input" (P1). The rating is the motor's size, one figure for every point (common practice).
+ * Of a header that namesInputPower, with a motor word and neither P1, "input" nor an electrical word: "rated-motor" when it names
+ * the rating ("Rated motor output kW", "Nennleistung Motor", "Motor rated power", "Nominal motor power", "Motornennleistung",
+ * "Motor rating kW", "Motor size kW"), else "motor" ("Motor power", "Motor kW", "Motorleistung", "Puissance moteur"): taken to be
+ * the rating too, as vendor catalogues write it, but assumed (rated-power.ts says so with the other readings). Any other header is
+ * "input" (P1). A rating is the motor's size, one figure for every point (common practice).
  */
-export function inputPowerKind(norm: string): "input" | "rated-motor" {
-  const rated = MOTOR.test(norm) && (RATED.test(norm) || NENNLEISTUNG.test(norm));
-  return rated && !P1.test(norm) && !INPUT.test(norm) && !ELECTRICAL_WORDS.test(norm) ? "rated-motor" : "input";
+export function inputPowerKind(norm: string): "input" | "rated-motor" | "motor" {
+  if (!MOTOR.test(norm) || P1.test(norm) || INPUT.test(norm) || ELECTRICAL_WORDS.test(norm)) return "input";
+  return namesRating(norm) || MOTOR_RATING.test(norm) ? "rated-motor" : "motor";
+}
+
+/**
+ * True when a power header (already normalised) names a rated, nominal or nameplate power ("Rated power kW", "Nominal power",
+ * "Nennleistung", "Bemessungsleistung", "Rated output kW") and no P1, P2, shaft, brake, absorbed, input, electrical or motor word:
+ * a rating, one figure for all points, assumed (rated-power.ts). "Rated power P2" and "Rated shaft power" stay shaft power.
+ */
+export function namesRatedPower(norm: string): boolean {
+  return namesRating(norm) && !P1.test(norm) && !namesShaft(norm) && !ELECTRICAL.test(norm) && !INPUT.test(norm) && !ABSORBED.test(norm);
 }
 
 /** A power column that is not the pump's shaft power: what its header names, and why reading it as P2 misleads. */

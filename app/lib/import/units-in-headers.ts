@@ -17,7 +17,7 @@
  * makes it a mapping error until the user chooses the column's unit.
  */
 import { refusedAfter, refusedBefore, tok, GALLONS_PER_MINUTE, IMPERIAL_MARK, type RefusedWord } from "./unit-words";
-import { ELECTRICAL_POWER_WORD, inputPowerKind, namesInputPower } from "./input-power";
+import { ELECTRICAL_POWER_WORD, inputPowerKind, namesInputPower, namesRatedPower } from "./input-power";
 import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
 import { PER_UNIT } from "./per-unit";
 import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
@@ -217,12 +217,16 @@ export type { PowerKind } from "./power-kinds";
 /** A unit word for power written in a (normalised) header, read or refused: it settles the headers of ambiguous-power.ts. */
 const namesPowerUnit = (norm: string) => (detectUnit("power", norm) ?? refusedAfter("power", norm)) !== null;
 
-/** The power a (normalised) header names when it is not shaft power (input-power.ts, hydraulic-power.ts, per-unit.ts, ambiguous-power.ts), else null. */
+/**
+ * The power a (normalised) header names when it is not shaft power (input-power.ts, hydraulic-power.ts, per-unit.ts, ambiguous-power.ts,
+ * rated-power.ts), else null. A rated power is a rating before any hydraulic reading of its words ("Rated output kW" is a nameplate figure).
+ */
 function powerKindWords(norm: string): PowerKind | null {
   const field = fieldWords(norm);
   if (field === "power" && PER_UNIT.test(norm)) return "per-unit";
   if ((field === "power" || (field === "ignore" && ELECTRICAL_POWER_WORD.test(norm))) && namesInputPower(norm)) return inputPowerKind(norm);
   if (field === "power" && FOERDERLEISTUNG.test(norm)) return namesPowerUnit(norm) ? "hydraulic" : "flow-or-hydraulic";
+  if (field === "power" && namesRatedPower(norm)) return "rated";
   if ((field === "power" || (field === "ignore" && HYDRAULIC_POWER_WORD.test(norm))) && namesHydraulicPower(norm)) return "hydraulic";
   return null;
 }
@@ -244,7 +248,7 @@ function waterPowerKind(header: string): PowerKind | null {
 
 /**
  * The power `header` names when it reads as power but is not the pump's shaft power: "input" (P1, "Input power",
- * "Motor kW", "kW el"...), "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw (kW)"...), "per-unit" ("P.U."),
+ * "kW el"...), "rated-motor" ("Rated motor output kW"), a rating assumed ("motor": "Motor kW"; "rated": "Rated power kW"), "hydraulic" ("Hydraulic power", "Output power", "Phyd", "Pw (kW)"...), "per-unit" ("P.U."),
  * or a word with two readings ("water-or-watts": "P_w"; "flow-or-hydraulic": "Förderleistung"); null otherwise.
  * guessHeader leaves such a column unmapped and checkMapping says why (powerKindMessage, power-kinds.ts).
  */

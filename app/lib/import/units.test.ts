@@ -250,10 +250,11 @@ describe("guessHeader — electrical input power (P1) is never shaft power", () 
     P1("Power input"), // source: same
     P1("Input kW"), // source: same
     P1("kW input"), // source: same
-    P1("Motor power"), // source: the motor's power is not the pump's shaft power (definition)
-    P1("Motor kW"), // source: same
-    P1("Motor power (hp)"), // source: same
-    P1("Motorleistung"), // source: German "motor power"
+    // "Motor power", "Motor kW", "Motor power (hp)", "Motorleistung" were P1 here: a motor's power with no input word is now
+    // its rating, assumed (kind "motor", header-words.test.ts). A motor word with an input word stays P1:
+    P1("Motor power input"), // source: input named (common practice: P1 is the input)
+    P1("Motor input power (kW)"), // source: same
+    P1("Motor power P1"), // source: P1 named
     P1("Electrical power"), // source: the electrical side is P1 (definition)
     P1("Electric power kW"), // source: same
     P1("El. power (kW)"), // source: same, abbreviated
