@@ -173,7 +173,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       const a = cellStart[ci];
       const e = cellEnd[ci];
       if (a === e) {
-        if (k <= 3) return null; // flow and head are required; a blank speed or diameter cell needs a message
+        if (k <= 3) return null; // flow and head are required; whether a blank speed or diameter cell splits a curve is the full path's (blank-keys.ts)
         num[k] = NaN;
         continue;
       }

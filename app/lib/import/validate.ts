@@ -6,6 +6,8 @@
  * - numeric cells must read as numbers (not-a-number) and not be negative (negative);
  *   speed and impeller diameter must be above zero (zero);
  * - flow and head are required on a point row (missing-value); the model is required (missing-model);
+ *   speed and impeller diameter are optional: a blank cell is "not given" for its set, unless the rows
+ *   next to it make it a break in a curve that has one (missing-value, blank-keys.ts);
  * - efficiency must not exceed 100 % (efficiency-over-100);
  * - the engine's point rules (point-rules.ts): efficiency above zero where flow is above zero, power and
  *   NPSHr above zero (zero); a power or NPSHr of 0 at shutoff (zero flow) is left out of its point with
@@ -31,6 +33,7 @@ import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesT
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
+import { rowModel, splittingBlanks, type KeyColumn } from "./blank-keys";
 import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -116,7 +119,9 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   const add = (row: number, column: string | null, code: ProblemCode, reason: string, curve: string | null, severity: "error" | "warning" = "error") =>
     problems.push({ row, column, reason, severity, code, curveKey: curve });
 
-  for (const lr of rows) {
+  const splits = splittingBlanks(rows, opts.decimalComma);
+  for (let ri = 0; ri < rows.length; ri++) {
+    const lr = rows[ri];
     const rowProblems: Array<Omit<Problem, "curveKey">> = [];
     const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
@@ -168,15 +173,19 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
 
     const modelCell = lr.cells.model;
     // Text cells as written: our CSV writer's formula defusing undone (text-cells.ts); a default typed on the mapping page is kept as typed.
-    const model = modelCell ? (modelCell.column === "(default)" ? modelCell.raw.trim() : textCell(modelCell.raw)) : "";
+    const model = rowModel(lr);
     if (modelCell && !model) bad(modelCell.column, "missing-model", "model is empty");
-    // A blank cell in a mapped speed or diameter column would start a new curve without that value
-    // (splitting the curve): it is an error charged to the curve above, with the two ways out.
-    const blankKey = (field: "speed" | "impeller") => {
-      const cell = lr.cells[field];
-      if (!cell || cell.preset !== undefined || cell.raw.trim() !== "") return false;
-      bad(cell.column, "missing-value",
-        `${FIELD_LABEL[field]} is empty; tick “fill blank key cells from the row above”${field === "speed" ? " or set a speed for blank cells" : ""}, or fill it in`);
+    // A blank cell in a mapped speed or diameter column is "not given" for its set, unless the rows next to it
+    // make it a break in a curve that has one (blank-keys.ts): that would split the curve, so it is an error
+    // charged to the curve above, naming the row that has the value, with the ways out.
+    const split = splits.get(ri);
+    const blankKey = (field: KeyColumn) => {
+      const s = split?.[field];
+      if (!s) return false;
+      const other = field === "speed" ? "impeller diameter" : "speed";
+      bad(lr.cells[field]!.column, "missing-value",
+        `${FIELD_LABEL[field]} is empty, but line ${s.line} ${s.where} it (same model${s.otherBlank ? `, ${other} blank here too` : ` and ${other}`}) has ${s.raw}: ` +
+        `the rows of one curve all give it or none does, so a blank here would split that curve; tick “fill blank key cells from the row above”${field === "speed" ? " or set a speed for blank cells" : ""}, or fill it in`);
       return true;
     };
     const speedBlank = blankKey("speed");

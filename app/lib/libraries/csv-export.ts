@@ -6,13 +6,15 @@ export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,hea
 
 /**
  * A revision's curves in our own CSV format (fixtures/demo/FORMAT.md): long layout, SI-derived display units.
- * The key columns `speed_rpm` and `impeller_mm` are written only when some curve set carries a value:
- * the importer refuses a blank cell in a mapped speed or diameter column (it would split a curve),
+ * The key columns `speed_rpm` and `impeller_mm` are written only when some curve set carries a value,
  * so a library whose curves have no impeller diameter (or no speed) is written without that column
- * and imports again with the diameter (speed) not given. Each set writes its value on every row.
- * Limit: a library where some sets have a diameter and others not writes blank cells for the latter,
- * which the importer refuses by name (missing-value); one import never makes such a revision except
- * from a wide file mixing speed-only and diameter blocks.
+ * and imports again with the diameter (speed) not given. Each set writes its value on every row, and a
+ * set without one writes blank cells beside sets with one: the importer reads them as "not given" for
+ * that set (import/blank-keys.ts), so a library mixing both imports again (export-roundtrip.test.ts,
+ * export-property.test.ts). Limit: one model at one speed both with and without a diameter (only a wide
+ * file with a speed-only block and a diameter block at the same speed makes it) writes one group of
+ * rows that disagree, which the importer refuses by line and column (missing-value): a blank there could
+ * as well be a break in the curve above.
  */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
   const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));

@@ -1,6 +1,7 @@
 // Our library CSV export (GET /libraries/:id/export.csv, csv-export.ts) imports again into a fresh
-// library with the same curve sets and points: every demo library (fixtures/demo, invented), and
-// libraries whose curves carry no impeller diameter or no speed (invented names and numbers).
+// library with the same curve sets and points: every demo library (fixtures/demo, invented),
+// libraries whose curves carry no impeller diameter or no speed, and libraries mixing sets with and
+// without one (invented names and numbers).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { analyseStored, createLibrary, curvesToCsv, getUpload, importUpload, libraryCurves, storeUpload, type LibraryCurveSet, type Viewer } from "./index";
@@ -84,6 +85,28 @@ describe("library CSV export → import into a fresh library", () => {
     const csv = await roundTrip("no speed", first.curves, first.libId);
     expect(csv.split("\n")[0]).toBe("model,type,size,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m");
   });
+
+  // A revision mixing sets with and without a diameter comes from a wide file with a diameter block beside a
+  // speed-only block (invented names and numbers). Its export writes blank impeller_mm (speed_rpm) cells for the sets without one.
+  const head = [[0, 42], [30, 40], [60, 33]];
+  const low = [[0, 11], [15, 10], [30, 8]];
+  const wide = (model: string, speedColumn: boolean) =>
+    [`Model,${speedColumn ? "Speed (rpm)," : ""}Q 250mm (m3/h),H 250mm (m),Q@1450 rpm (m3/h),H@1450 rpm (m)`,
+      ...head.map((h, i) => [model, ...(speedColumn ? [2900] : []), ...h, ...low[i]].join(","))].join("\n") + "\n";
+
+  test("a library mixing a set with a diameter and a set without one imports again: same sets, points and diameters", async () => {
+    const first = await importedLibrary("mixed impeller", wide("Invented MX 65", true));
+    expect(first.curves.map((c) => [c.speed, c.impellerDiameter])).toEqual([[1450, null], [2900, 0.25]]); // source: construction (the file's two blocks)
+    const csv = await roundTrip("mixed impeller", first.curves, first.libId);
+    expect(csv.split("\n").slice(1, 2)).toEqual(["Invented MX 65,,,1450,,0,11,,,"]); // source: construction: the set without a diameter has a blank cell
+  });
+
+  test("a library mixing a set with a diameter and no speed and one with a speed and no diameter imports again", async () => {
+    const first = await importedLibrary("mixed speed", wide("Invented MX 80", false));
+    expect(first.curves.map((c) => [c.speed, c.impellerDiameter])).toEqual([[null, 0.25], [1450, null]]); // source: construction (the file's two blocks)
+    const csv = await roundTrip("mixed speed", first.curves, first.libId);
+    expect(csv.split("\n").slice(1, 5)).toEqual(["Invented MX 80,,,,250,0,42,,,", "Invented MX 80,,,,250,30,40,,,", "Invented MX 80,,,,250,60,33,,,", "Invented MX 80,,,1450,,0,11,,,"]); // source: construction
+  });
 });
 
 describe("curvesToCsv key columns", () => {
@@ -98,8 +121,15 @@ describe("curvesToCsv key columns", () => {
     expect(csv.split("\n").slice(1, 3)).toEqual(["A,,,2900,200,0,10,,,", "A,,,2900,200,3.6,9,,,"]);
   });
 
-  test("limit: a library mixing sets with and without a diameter writes blank cells, which the importer refuses by name", () => {
+  test("a library mixing sets with and without a diameter writes blank cells, which the importer reads as no diameter", () => {
     const a = analyseCsv(curvesToCsv([set("A", 2900, 0.2), set("B", 2900, null)]));
-    expect(a.result.problems.filter((p) => p.severity === "error").map((p) => [p.row, p.column, p.code])).toEqual([5, 6, 7].map((row) => [row, "impeller_mm", "missing-value"]));
+    expect(a.result.problems).toEqual([]); // source: blank-keys.ts rule (another model: a set of its own)
+    expect(a.result.curveSets.map((c) => [c.key, c.impellerDiameter, c.points.length, c.ok])).toEqual([["A|2900|200", 0.2, 3, true], ["B|2900|", null, 3, true]]); // source: construction
+  });
+
+  test("limit: one model at one speed with and without a diameter is one group whose rows disagree, refused by line and column", () => {
+    const a = analyseCsv(curvesToCsv([set("A", 2900, 0.2), set("A", 2900, null)]));
+    expect(a.result.problems.filter((p) => p.severity === "error").map((p) => [p.row, p.column, p.code])).toEqual([5, 6, 7].map((row) => [row, "impeller_mm", "missing-value"])); // source: construction, lines 5-7 (header, three rows of the first set)
+    expect(a.result.problems[0].reason).toContain("line 4 above it (same model and speed) has 200"); // source: construction (the first set's last row)
   });
 });
