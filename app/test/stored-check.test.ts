@@ -112,14 +112,15 @@ describe.each(CASES)("a recorded check with $name", (c) => {
     const r = await get(fieldCsv.loader, `/field/selections/${s.selectionId}/export.csv`);
     expect(r.status).toBe(200);
     const lines = String(r.body).trim().split("\r\n");
-    const note = lines[2].startsWith('"') ? lines[2].slice(1, -1).replace(/""/g, '"') : lines[2]; // one cell (a CSV cell doubles its quotes)
+    expect(lines[2]).toMatch(/^"?# verdict: pass when either arm of the grade's tolerance cross is met/);
+    const note = lines[3].startsWith('"') ? lines[3].slice(1, -1).replace(/""/g, '"') : lines[3]; // one cell (a CSV cell doubles its quotes)
     expect(note).toMatch(new RegExp(`^# check ${s.damaged} \\(chain ${s.damaged}, version 1, recorded \\d{4}-\\d\\d-\\d\\dT[^)]*\\) cannot be read, so it has no row below: 1 problem in its stored record — `));
     const line = note.slice(note.indexOf(" — ") + 3);
     const stored = c.stored ? ` (stored: ${c.stored})` : "";
     expect(line.startsWith(`${c.label}: `) && line.endsWith(stored), line).toBe(true);
     expect(line.slice(c.label.length + 2, line.length - stored.length)).toMatch(c.message);
-    expect(lines[3]).toMatch(/^check_id,chain_id,version/);
-    expect(lines.slice(4).map((l) => l.split(",")[0])).toEqual([String(s.sound)]);
+    expect(lines[4]).toMatch(/^check_id,chain_id,version/);
+    expect(lines.slice(5).map((l) => l.split(",")[0])).toEqual([String(s.sound)]);
     expect(String(r.body)).not.toContain("⟦");
   });
 

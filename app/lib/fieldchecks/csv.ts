@@ -15,7 +15,18 @@ export type CheckHistoryForCsv = {
 };
 
 /**
- * One row per check (oldest taken first, as `checksOf` orders them, reversed) after two comment lines naming the selection and the cautions. A check whose stored
+ * How each row's verdict follows from its columns (evaluate.ts `verdictFor`; cross.ts; ISO 9906:2012 6.4.2, from memory), so a
+ * row reads on its own: a pass with head −6 % beside flow +4 % under grade 2B is the flow arm met, not an error.
+ */
+const VERDICT_RULE =
+  "# verdict: pass when either arm of the grade's tolerance cross is met at the delivered point (ISO 9906:2012, from memory) — " +
+  "head_dev_from_curve from −head_allowed_below to +head_allowed_above (the curve's head at the measured flow), or " +
+  "flow_dev_from_curve from −flow_allowed_below to +flow_allowed_above (the curve's flow at the measured head); all fractions. " +
+  "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty). " +
+  "fail: missed, or a power or efficiency limit missed as read (power_limits not met). unknown: no flow meter, so flow and head are not judged.";
+
+/**
+ * One row per check (oldest taken first, as `checksOf` orders them, reversed) after three comment lines naming the selection, the cautions and the verdict rule. A check whose stored
  * record cannot be read has no row (no blank numbers a spreadsheet would sum as zeros): a comment line above the header
  * names it — id, version, date, who — and says what is wrong.
  */
@@ -29,10 +40,12 @@ export function historyCsv(h: CheckHistoryForCsv): string {
   const lines: unknown[][] = [
     ["# Dutymark field checks", `selection ${h.selection.id}`, h.selection.title, h.selection.projectName],
     ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],
+    [VERDICT_RULE],
     ...unreadable,
     [
       "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
+      "head_allowed_below", "head_allowed_above", "flow_allowed_below", "flow_allowed_above",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c",
@@ -46,6 +59,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     lines.push([
         c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
+        r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
         r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), c.notes,

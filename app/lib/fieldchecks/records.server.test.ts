@@ -1,5 +1,6 @@
 // Field checks: the head from readings (hand-worked), verdict boundaries per grade, the flow band
 // against curve slope, the codec's units, photos, and the recorded journey across two workspaces.
+import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -313,8 +314,20 @@ describe("recorded checks across workspaces", () => {
     expect(res.status).toBe(200);
     const text = String(res.body);
     const lines = text.trim().split("\r\n");
-    expect(lines[2]).toMatch(/^check_id,chain_id,version/);
-    expect(lines.slice(3)).toHaveLength(2);
+    expect(lines[3]).toMatch(/^check_id,chain_id,version/);
+    expect(lines.slice(4)).toHaveLength(2);
+    // Each row carries the grade's allowances beside its deviations, and the verdict follows from them by the rule line
+    // (either arm of the cross; grade 2B: head ±5 %, flow ±8 %, ISO 9906:2012 from memory).
+    expect(lines[2]).toMatch(/^"?# verdict: pass when either arm/);
+    const rows = Papa.parse<Record<string, string>>(lines.slice(3).join("\n"), { header: true }).data;
+    for (const row of rows) {
+      expect([row.grade, row.head_allowed_below, row.head_allowed_above, row.flow_allowed_below, row.flow_allowed_above]).toEqual(["2B", "0.05", "0.05", "0.08", "0.08"]);
+      const within = (d: string, lo: string, hi: string) => d !== "" && Number(d) >= -Number(lo) - 1e-12 && Number(d) <= Number(hi) + 1e-12;
+      const eitherArm = within(row.head_dev_from_curve, row.head_allowed_below, row.head_allowed_above) || within(row.flow_dev_from_curve, row.flow_allowed_below, row.flow_allowed_above);
+      if (row.verdict === "pass") expect(eitherArm).toBe(true);
+      if (row.verdict === "fail" || row.verdict === "marginal") expect(eitherArm && row.power_limits !== "not met").toBe(false);
+    }
+    expect(rows.map((r) => r.verdict).filter((v) => v !== "unknown").length).toBeGreaterThan(0);
     expect(text).toContain(`"'=HYPERLINK(""x"") valve V3 found half shut"`);
     expect(historyCsv(await checkHistory(engV, sel.selectionId))).toBe(text);
   });
