@@ -73,7 +73,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => totalPowerText(unitSystem, c.result?.figures?.shaftPower, basisOf(c))],
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
-    ["NPSHa / NPSHr", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
+    ["NPSHa / NPSHr (design curve)", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
     ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(c.result.figures.npshMarginRatio, c.result.npsh?.requiredMargin)} ({c.result.figures.npshStatus})</span> : "—")],
     ["Largest power on curve", (c) => perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c))],
     ["Motor", (c) => {

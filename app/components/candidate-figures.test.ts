@@ -55,7 +55,7 @@ describe("the candidates table's judged figures read apart from their limits", (
     for (const required of [3, 4, 4.37]) for (const off of OFFSETS) for (const units of [SI_UNITS, US_UNITS]) {
       const available = required * (1 + off);
       const status = available < required ? "cavitation-risk" : "low-margin";
-      const t = cell(view({ ...ok, npshAvailable: available, npshRequired: required, npshMarginRatio: available / required, npshStatus: status }, 1.1), units, "NPSHa / NPSHr");
+      const t = cell(view({ ...ok, npshAvailable: available, npshRequired: required, npshMarginRatio: available / required, npshStatus: status }, 1.1), units, "NPSHa / NPSHr (design curve)");
       const m = /^([\d.]+) (m|ft) \/ ([\d.]+) (m|ft)$/.exec(t);
       expect(m, t).toBeTruthy();
       expectApart(m![1], toChosen(units, "head", available), toChosen(units, "head", required), t);
@@ -87,7 +87,7 @@ describe("the candidates table's judged figures read apart from their limits", (
   it("values well apart from their limits read as before (hand-written cases)", () => {
     expect(cell(view({ ...ok, bepRatio: 0.55, inPor: false }, 1.1), SI_UNITS, "Position vs BEP")).toBe("55 % of BEP flow — outside POR");
     expect(cell(view({ ...ok, bepRatio: 0.95, inPor: true }, 1.1), SI_UNITS, "Position vs BEP")).toBe("95 % of BEP flow");
-    expect(cell(view(ok, 1.1), SI_UNITS, "NPSHa / NPSHr")).toBe("8.00 m / 4.00 m");
+    expect(cell(view(ok, 1.1), SI_UNITS, "NPSHa / NPSHr (design curve)")).toBe("8.00 m / 4.00 m");
     expect(cell(view(ok, 1.1), SI_UNITS, "NPSH margin")).toBe("2.00 (ok)");
   });
   it("NPSHa at or below zero without NPSHr decides at a corner: the band cell names NPSHa and the corner, in m and ft (made-up figures)", () => {

@@ -84,7 +84,7 @@ export function Legend({
         )}
         {kinds.has("npsh") && model.npsha.length > 0 && (
           <li className="inline-flex items-center gap-1">
-            <Swatch color={C.npsha} dashed /> NPSHa
+            <Swatch color={C.npsha} dashed /> NPSHa (aged suction pipe)
           </li>
         )}
         {model.duty && (

@@ -100,7 +100,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
             ))}
             {hasNpsha && (
               <th className={th} rowSpan={2} scope="col">
-                NPSHa ({u.npsh.label})
+                NPSHa, aged suction pipe ({u.npsh.label})
               </th>
             )}
           </tr>

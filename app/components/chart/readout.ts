@@ -64,7 +64,7 @@ export function readoutRows(model: ChartModel, flow: number, hidden: ReadonlySet
   if (model.npsha.length > 0 && kinds.includes("npsh")) {
     rows.push({
       key: "npsha",
-      label: "NPSHa",
+      label: "NPSHa (aged pipe)",
       color: "#1e293b",
       dashed: true,
       values: { npsh: interpolateAt(model.npsha, flow) },

@@ -60,7 +60,10 @@ export type SystemEvaluation = {
   runs: RunReport[];
   warnings: string[];
   fluid: { density: number; kinematicViscosity: number; vaporPressure: number };
+  /** NPSHa over the flow range through the aged suction pipe (the least over the pipe's life), m. */
   npsha: { flow: number; y: number }[];
+  /** NPSHa at the duty flow itself (aged suction pipe, as `npsha`), m; null without a duty. Absent in evaluations stored before it was kept. */
+  npshaAtDuty?: number | null;
   /** The typed duty head against the system curve's head at the duty flow (null without a duty). */
   dutyCheck: DutyCheck | null;
 };
@@ -148,10 +151,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
       warnings.push(`${r.name || `A ${r.side} run`}: Re ${fmtNumExact(res.reynolds, [LAMINAR_MAX_RE], 0)} at the duty flow is below ${LAMINAR_MAX_RE} (laminar), but the catalogue fittings' K values (Crane TP-410) are for turbulent flow: at low Re a fitting's K grows roughly as 1/Re (3-K method, Darby, from memory), so this run's fittings loss is underestimated.`);
     return { name: r.name, side: r.side, velocity: res.velocity, reynolds: res.reynolds, frictionFactor: res.frictionFactor, regime: res.regime, headLoss: res.headLoss, warnings };
   });
-  const npsha = curve.flows.map((q) => {
-    const hf = suctionLoss(prepared, q, "aged").headLoss;
-    return { flow: q, y: (input.suctionSurfacePressure - fluid.vaporPressure) / (fluid.density * 9.80665) + input.suctionStaticHead - hf };
-  });
+  const npshaAt = (q: number) => (input.suctionSurfacePressure - fluid.vaporPressure) / (fluid.density * 9.80665) + input.suctionStaticHead - suctionLoss(prepared, q, "aged").headLoss;
+  const npsha = curve.flows.map((q) => ({ flow: q, y: npshaAt(q) }));
   const noSuction = npshaAtZeroFlow(input, fluid);
   if (noSuction) warnings.push(noSuction);
   return {
@@ -166,6 +167,7 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
     warnings: [...runInputWarnings(input), ...wText(curve.warnings), ...warnings],
     fluid: { density: fluid.density, kinematicViscosity: fluid.kinematicViscosity, vaporPressure: fluid.vaporPressure },
     npsha,
+    npshaAtDuty: input.duty ? npshaAt(input.duty.flow) : null,
     dutyCheck: dutyCheckOf(input, prepared),
   };
 }

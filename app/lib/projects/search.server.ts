@@ -171,11 +171,13 @@ export function searchOptionsFor(input: SystemInput, evaluation: ReturnType<type
   };
 }
 
-/** NPSHa at the system curve's point nearest the duty flow, m (what the engine's search judges NPSHr against); null without a duty or points. */
+/**
+ * NPSHa at the duty flow through the aged suction pipe, m (what the engine's search judges NPSHr against); null without a
+ * duty. At the duty itself: the curve's nearest sample was up to half a grid step off (and further when the system's flow
+ * range is set well past the duty).
+ */
 export function npshaAtDutyOf(input: SystemInput, evaluation: ReturnType<typeof evaluateSystem>): number | null {
-  const duty = input.duty;
-  if (!duty || evaluation.npsha.length === 0) return null;
-  return evaluation.npsha.reduce((best, p) => (Math.abs(p.flow - duty.flow) < Math.abs(best.flow - duty.flow) ? p : best)).y;
+  return input.duty ? (evaluation.npshaAtDuty ?? null) : null;
 }
 
 /** Same model, speed, impeller and points: one distinct curve, however many libraries reach it. */

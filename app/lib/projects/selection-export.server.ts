@@ -24,6 +24,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
   const basis = pumpsBasis(f.adjustment);
   if (basis) lines.push(row([`# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
+  lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe"]));
   lines.push([]);
   const w = (name: string) => powerColumn(basis, name);
   lines.push(row(["section", "flow_m3s", "head_m", "head_low_m", "head_high_m", "pressure_pa", "npsha_m"]));
