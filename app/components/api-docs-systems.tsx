@@ -58,6 +58,12 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
         Without <code>page</code> the answer is the first {pageRows} results, as before paging. <code>stats</code> counts the curves searched, <code>rejectedByEnvelope</code> (out of their range),{" "}
         <code>rejectedByNpsh</code> (NPSHr at the duty above the NPSHa there) and <code>matched</code>. Without a duty,{" "}
         <code>results</code> is empty and <code>message</code> says why; an unknown <code>method</code> is a 400.
+        For a custom liquid, <code>liquidSearch</code> says how the water curves were searched (null for water): per pump speed
+        in <code>groups[]</code>, <code>{"{ speed, sets, status, b, factors { flow, head, efficiency }, waterDuty { flow, head } }"}</code>.
+        With <code>status</code> corrected (ANSI/HI 9.6.7 parameter B from 1 to 40, the duty taken as the BEP) those curves were
+        searched at the equivalent water duty Q/C_Q, H/C_H and the results' figures are estimates on the liquid; with
+        no-correction (B at most 1), outside-method (B above 40) or no-speed the duty itself was searched on the water curves, as
+        before. <code>ranksOnLiquid</code>, <code>rule</code> and <code>message</code> (the same line as the search page) go with it.
       </p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SEARCH_FIELDS} />
       <h3 className="font-semibold">Verdict statuses</h3>

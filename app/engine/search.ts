@@ -177,15 +177,7 @@ export function searchDuty(
     if (p !== null && p < minPower) minPower = p;
   }
   const score = new Float64Array(matched);
-  for (let j = 0; j < matched; j++) {
-    let s = fEff[j] ?? 0.3;
-    const bepRatio = fBep[j], npshMargin = fMargin[j], shaftPower = fPower[j];
-    if (bepRatio !== null) s -= 0.5 * Math.abs(bepRatio - 1);
-    else s -= 0.1;
-    if (npshMargin !== null && npshMargin < reqMargin) s -= 0.1 * (reqMargin - npshMargin) / (reqMargin - 1 || 1) + 0.05;
-    if (shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (shaftPower / minPower - 1);
-    score[j] = s;
-  }
+  for (let j = 0; j < matched; j++) score[j] = searchScore(fEff[j], fBep[j], fMargin[j], fPower[j], minPower, reqMargin);
   const ids = idx.ids;
   const top: Candidate[] = bestMatches(score, limit, (a, b) => score[b] - score[a] || (ids[fE[a]] < ids[fE[b]] ? -1 : ids[fE[a]] > ids[fE[b]] ? 1 : 0)).map((j) => {
     const e = fE[j], method = METHODS[fMethod[j]], ratio = fRatio[j], bepRatio = fBep[j];
@@ -201,6 +193,26 @@ export function searchDuty(
   });
   explainRanks(top, matched, reqMargin);
   return requireFiniteResult("duty", { candidates: top, stats: { searched: idx.count, rejectedByEnvelope, evaluated, rejectedByNpsh, matched } });
+}
+
+/**
+ * A match's score (higher is better, dimensionless): efficiency at duty (0.3 without data), less 0.5 × |Q/Q_BEP − 1|
+ * (0.1 without a BEP), less a penalty for an NPSH margin below the required one, less 0.1 × the shaft power's excess
+ * over the least among the matches compared.
+ * @param efficiency at duty (fraction) or null
+ * @param bepRatio Q_d / Q_BEP (dimensionless) or null
+ * @param npshMargin NPSHa / NPSHr (dimensionless) or null
+ * @param shaftPower at duty, W, or null
+ * @param minPower the least shaft power among the matches compared, W (Infinity when none has one)
+ * @param reqMargin required NPSH margin ratio (dimensionless)
+ */
+export function searchScore(efficiency: number | null, bepRatio: number | null, npshMargin: number | null, shaftPower: number | null, minPower: number, reqMargin: number): number {
+  let s = efficiency ?? 0.3;
+  if (bepRatio !== null) s -= 0.5 * Math.abs(bepRatio - 1);
+  else s -= 0.1;
+  if (npshMargin !== null && npshMargin < reqMargin) s -= 0.1 * (reqMargin - npshMargin) / (reqMargin - 1 || 1) + 0.05;
+  if (shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (shaftPower / minPower - 1);
+  return s;
 }
 
 /**

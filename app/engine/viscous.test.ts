@@ -3,7 +3,7 @@
 // equations in viscous.ts, done with python3 as a calculator and written beside it.
 import { describe, expect, it } from "vitest";
 import {
-  bisection, correctCurveForViscosity, createPumpCurve, efficiencyAt, EngineInputError, findCorrelation, G0, headAt, judgeCandidate, shaftPowerAt,
+  bisection, correctCurveForViscosity, createPumpCurve, efficiencyAt, EngineInputError, equivalentWaterDuty, findCorrelation, G0, headAt, judgeCandidate, shaftPowerAt,
   viscosityCorrectionText, viscosityFactors, viscosityParameterB, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION,
 } from "./index.ts";
 
@@ -166,5 +166,38 @@ describe("the verdict on a viscous liquid (verdict.ts)", () => {
   });
   it("refuses a curve said to be corrected above B = 40", () => {
     expect(() => judgeCandidate({ dutyFlow: 0.01, edges: edges(0.0105), viscosity: { b: 41, corrected: true } })).toThrow(EngineInputError);
+  });
+});
+
+describe("the equivalent water duty for a viscous duty (equivalentWaterDuty)", () => {
+  // ANSI/HI 9.6.7, its procedure for choosing a pump for a given viscous duty (from memory): B with the duty taken as the BEP,
+  // C_Q and C_H at 1.0 × Q_BEP, Q_W = Q_vis / C_Q, H_W = H_vis / C_H. Hand calculation (python3 as a calculator):
+  // 100 m³/h = 440.287 gpm, 30 m = 98.425 ft, 200 cSt, 2900 rpm → B = 26.6·200^0.5·98.425^0.0625 / (440.287^0.375·2900^0.25)
+  // = 6.9657; C_Q = C_H = 2.71^(−0.165·(log₁₀ 6.9657)^3.15) = 0.90843; C_η = 6.9657^(−0.0547·6.9657^0.69) = 0.66685;
+  // Q_W = 100 / 0.90843 = 110.080 m³/h, H_W = 30 / 0.90843 = 33.024 m.
+  const duty = { flow: 100 * M3H, head: 30, kinematicViscosity: 200e-6, speed: 2900 };
+  it("inside the method's range: B, the factors and the water duty as the hand calculation gives them", () => {
+    const w = equivalentWaterDuty(duty);
+    expect(w.status).toBe("corrected");
+    expect(w.b).toBeCloseTo(6.9657, 4);
+    expect(w.factors!.flow).toBeCloseTo(0.90843, 5);
+    expect(w.factors!.head).toBeCloseTo(0.90843, 5);
+    expect(w.factors!.efficiency).toBeCloseTo(0.66685, 5);
+    expect(w.flow / M3H).toBeCloseTo(110.080, 3);
+    expect(w.head).toBeCloseTo(33.024, 3);
+  });
+  it("B above 40 (8000 cSt: hand B = 44.06) is outside the method: the duty itself, with the warning", () => {
+    const w = equivalentWaterDuty({ ...duty, kinematicViscosity: 8000e-6 });
+    expect(w.status).toBe("outside-method");
+    expect(w.b).toBeCloseTo(44.06, 2);
+    expect(w.factors).toBeNull();
+    expect([w.flow, w.head]).toEqual([duty.flow, duty.head]);
+    expect(w.warnings[0].message).toMatch(/B = 44\.1 is above 40.*outside the method/);
+  });
+  it("B ≤ 1 (water, 1 cSt: hand B = 0.4926) needs no correction: the duty itself", () => {
+    const w = equivalentWaterDuty({ ...duty, kinematicViscosity: 1e-6 });
+    expect(w.status).toBe("no-correction");
+    expect(w.b).toBeCloseTo(0.4926, 4);
+    expect([w.flow, w.head]).toEqual([duty.flow, duty.head]);
   });
 });

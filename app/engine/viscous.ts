@@ -162,3 +162,41 @@ export function correctCurveForViscosity(curve: PumpCurve | PumpCurveInput, o: {
     minDiameter: c.minDiameter ?? undefined, maxDiameter: c.maxDiameter ?? undefined, riseTolerance: 1 });
   return { status: "corrected", b: p.b, factors: { flow: f.flow, head: f.head, efficiency: f.efficiency }, bep: at, speed, curve: corrected, warnings };
 }
+
+/** A viscous duty as the water duty to search the water curves at (`equivalentWaterDuty`). */
+export interface EquivalentWaterDuty {
+  /** `corrected` (1 < B ≤ 40): search at the water duty below; `no-correction` (B ≤ 1) and `outside-method` (B > 40): at the duty itself. */
+  status: "no-correction" | "corrected" | "outside-method";
+  /** B with the viscous duty taken as the BEP (dimensionless). */
+  b: number;
+  /** C_Q, C_H at 1.0 × Q_BEP (= C_BEP-H) and C_η (dimensionless); null unless `corrected`. */
+  factors: { flow: number; head: number; efficiency: number } | null;
+  /** The water duty to search at: Q_W, m³/s; H_W, m (the viscous duty itself unless `corrected`). */
+  flow: number;
+  head: number;
+  warnings: EngineWarning[];
+}
+
+/** The rule `equivalentWaterDuty` applies, in words. */
+export const EQUIVALENT_WATER_DUTY_RULE = "ANSI/HI 9.6.7 selection for a viscous duty (from memory: verify against the standard): B from the viscous duty taken as the BEP and the pump's speed, C_Q and C_H at 1.0 × Q_BEP (C_H = C_BEP-H = C_Q) and C_η; the water curves are searched at Q_W = Q_vis / C_Q, H_W = H_vis / C_H, and on the liquid a pump's efficiency is C_η × its water efficiency there; B ≤ 1 needs no correction; above B = 40 the method does not apply and the duty itself is searched";
+
+/**
+ * The water duty at which to choose a pump for a viscous duty (ANSI/HI 9.6.7, its procedure for selecting a pump for a
+ * given viscous duty, from memory): B computed with the viscous duty (Q_vis, H_vis per stage) taken as the BEP at
+ * `speed`; C_Q and C_H at 1.0 × Q_BEP (C_H = C_BEP-H = C_Q) and C_η; Q_W = Q_vis / C_Q, H_W = H_vis / C_H. B ≤ 1:
+ * the duty itself (no correction). B > 40: outside the method, the duty itself with a warning.
+ * @param o.flow viscous duty flow, m³/s
+ * @param o.head viscous duty head per stage, m
+ * @param o.kinematicViscosity kinematic viscosity of the pumped liquid, m²/s
+ * @param o.speed pump speed, rpm
+ */
+export function equivalentWaterDuty(o: { flow: number; head: number; kinematicViscosity: number; speed: number }): EquivalentWaterDuty {
+  if (!o || typeof o !== "object") throw new EngineInputError("input", "is required");
+  const flow = requirePositive("flow", o.flow), head = requirePositive("head", o.head);
+  const p = viscosityParameterB({ kinematicViscosity: o.kinematicViscosity, bepFlow: flow, bepHead: head, speed: o.speed });
+  if (!p.needsCorrection) return { status: "no-correction", b: p.b, factors: null, flow, head, warnings: [] };
+  if (p.b > VISCOSITY_B_MAX) return { status: "outside-method", b: p.b, factors: null, flow, head, warnings: p.warnings };
+  const f = viscosityFactors(p.b);
+  const ch = headFactor(f.head, 1); // at 1.0 × Q_BEP: C_BEP-H
+  return requireFiniteResult("flow", { status: "corrected", b: p.b, factors: { flow: f.flow, head: ch, efficiency: f.efficiency }, flow: flow / f.flow, head: head / ch, warnings: [] });
+}

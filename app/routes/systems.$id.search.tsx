@@ -64,8 +64,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     message: res.message,
     stats: res.stats,
     npshaAtDuty: res.npshaAtDuty,
-    // A custom liquid: the ranking's figures are the water curves' (the engine's search), each verdict on the liquid.
+    // A custom liquid: searched at the equivalent water duty (ANSI/HI 9.6.7) where the method applies, each verdict on the liquid.
     customLiquid: res.system.input.fluid.kind === "custom" ? res.system.input.fluid.name || "the custom liquid" : null,
+    liquidSearch: res.liquidSearch ? { message: res.liquidSearch.message, rule: res.liquidSearch.rule, ranksOnLiquid: res.liquidSearch.ranksOnLiquid } : null,
     hidden: res.hidden,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
@@ -190,9 +191,11 @@ export default function Search({ actionData }: Route.ComponentProps) {
       ) : null}
       {d.stats && d.customLiquid ? (
         <p className="text-xs caution" data-testid="search-liquid">
-          Ranked on the water curves: the efficiency, shaft power and "why this rank" figures are each pump's on water. Each row's verdict
-          and its NPSH over the band are judged on {d.customLiquid}, on the curve corrected for viscosity where ANSI/HI 9.6.7 applies (the
-          verdict says so); the candidate page shows every figure on the liquid.
+          {d.liquidSearch?.message}{" "}
+          {d.liquidSearch?.ranksOnLiquid ? "" : "Ranked on the water curves: the efficiency, shaft power and \"why this rank\" figures are each pump's on water. "}
+          Each row's verdict and its NPSH over the band are judged on {d.customLiquid}, on the pump's own curve corrected for viscosity where
+          ANSI/HI 9.6.7 applies (the verdict says so), and a row that does not meet the duty there ranks after those that do; the candidate
+          page shows every figure on the liquid. <span data-testid="search-liquid-rule">Rule: {d.liquidSearch?.rule}.</span>
         </p>
       ) : null}
       {d.stats && d.leftOut.count ? (

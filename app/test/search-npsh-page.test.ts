@@ -1,6 +1,6 @@
 // The search page as rendered: the NPSH column is judged over the band (range, lowest and where, status) with the
-// rule under the table; pumps left out for NPSH at the duty are counted with NPSHa there; a custom liquid says the
-// ranking's figures are the water curves' and each verdict the liquid's. Real route module, guards and MariaDB
+// rule under the table; pumps left out for NPSH at the duty are counted with NPSHa there; a custom liquid gives the
+// equivalent water duty searched (ANSI/HI 9.6.7), or why none, and says each verdict is the liquid's. Real route module, guards and MariaDB
 // (app/test/harness.ts); the two pumps are invented (app/test/npsh-probe.ts). Check values: our product rules
 // (search.server.ts rankClass) and common practice (NPSHa below NPSHr: cavitation risk).
 import { createElement } from "react";
@@ -54,9 +54,20 @@ describe("the search page's NPSH", () => {
     expect(text(html, "search-stats")).toMatch(/ · 1 left out because their NPSHr at the duty is above the NPSHa there \(\d\.\d+ m\)/);
   });
 
-  test("a custom liquid: the page says the ranking's figures are on water and each verdict on the liquid", async () => {
-    // A light oil (invented figures: 870 kg/m³, 0.05 Pa·s, 100 Pa vapour pressure).
+  test("a custom liquid: the page gives the equivalent water duty searched, its factors and rule, and each verdict on the liquid", async () => {
+    // A light oil (invented figures: 870 kg/m³, 0.05 Pa·s = 57.5 cSt, 100 Pa vapour pressure): B inside 1–40 at 2900 rpm for
+    // this duty (ANSI/HI 9.6.7 from memory; hand values of the method in app/engine/viscous.test.ts).
     const html = await pageHtml(await npshProbeSystem(v, projectId, 5, { kind: "custom", name: "Test oil", density: 870, dynamicViscosity: 0.05, vaporPressure: 100 }));
-    expect(text(html, "search-liquid")).toMatch(/^Ranked on the water curves: .* judged on Test oil, on the curve corrected for viscosity where ANSI\/HI 9\.6\.7 applies/);
+    const line = text(html, "search-liquid");
+    expect(line).toMatch(/^Searched for Test oil \(ν 57 cSt\) at the equivalent water duty of ANSI\/HI 9\.6\.7 \(from memory\): 2900 rpm: B = \d\.\d\d, C_Q 0\.\d{3}, C_H 0\.\d{3}, C_η 0\.\d{3} → water duty 1\d\d(\.\d)? m³\/h at \d\d(\.\d+)? m\./);
+    expect(line).toMatch(/judged on Test oil, on the pump's own curve corrected for viscosity where ANSI\/HI 9\.6\.7 applies .* a row that does not meet the duty there ranks after those that do/);
+    expect(line).toMatch(/Rule: ANSI\/HI 9\.6\.7 selection for a viscous duty .*Q_W = Q_vis \/ C_Q, H_W = H_vis \/ C_H/);
+    expect(line).not.toMatch(/Ranked on the water curves/);
+  });
+
+  test("a liquid whose B is above 40 keeps the water ranking, and the page says so", async () => {
+    // Invented: 900 kg/m³, 10 Pa·s (11 111 cSt): B above 40 at 2900 rpm for this duty (ANSI/HI 9.6.7 from memory).
+    const html = await pageHtml(await npshProbeSystem(v, projectId, 5, { kind: "custom", name: "Tar", density: 900, dynamicViscosity: 10, vaporPressure: 100 }));
+    expect(text(html, "search-liquid")).toMatch(/^No equivalent water duty of ANSI\/HI 9\.6\.7 \(from memory\) for Tar \(ν 11111 cSt\): 2900 rpm: B = \d\d\.\d\d, above 40: outside the method, so ranked on the water curves at the duty itself as before .* Ranked on the water curves: the efficiency/);
   });
 });

@@ -18,6 +18,7 @@ import { LRUCache } from "lru-cache";
 import { promiseCache } from "../shared/promise-cache";
 import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
 import { pageOf, type Paging } from "../shared/paging";
+import { onWaterFigures, searchOnLiquid, type LiquidSearchPlan } from "./search-liquid";
 
 
 export type SearchFilters = {
@@ -195,7 +196,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
@@ -210,7 +211,12 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
   const own = new Set(open.filter((o) => o.own).map((o) => o.libraryId));
   const npshaAtDuty = npshaAtDutyOf(system.input, evaluation); // judged by the search, and shown with its count
-  const res = searchDuty(prepared.index, { flow: system.input.duty.flow, head: system.input.duty.head }, searchOptionsFor(system.input, evaluation, filters, npshaAtDuty));
+  const duty = { flow: system.input.duty.flow, head: system.input.duty.head };
+  const options = searchOptionsFor(system.input, evaluation, filters, npshaAtDuty);
+  // A custom liquid: searched at the equivalent water duty of ANSI/HI 9.6.7 (search-liquid.ts). Water: the engine's search alone.
+  const fluid = system.input.fluid;
+  const onLiquid = fluid.kind === "custom" ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, options) : null;
+  const res = onLiquid ? onLiquid.result : searchDuty(prepared.index, duty, options);
   // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
   const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
   let duplicates = 0;
@@ -259,7 +265,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // The page asked for: ranks and "why this rank" run over every row up to its end, so they read the same on every page.
   const { first, ...paging } = pageOf(kept.length, pageSize, opts.page);
   const upTo = kept.slice(0, first + pageSize);
-  const notes = upTo.map((k, i) => (i === 0 || rankClass(k) === rankClass(upTo[i - 1]) ? null : `below #${i} because ${classText(k, "row")} where #${i} ${classText(upTo[i - 1], "above")}`));
+  const notes = upTo.map((k, i) => (i === 0 ? null : rankClass(k) !== rankClass(upTo[i - 1]) ? `below #${i} because ${classText(k, "row")} where #${i} ${classText(upTo[i - 1], "above")}`
+    : onLiquid && onWaterFigures(k.row) && !onWaterFigures(upTo[i - 1].row) ? `below #${i} because its figures are the water curve's where #${i}'s are estimated on ${onLiquid.plan.liquid} (ANSI/HI 9.6.7 equivalent water duty)` : null));
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
@@ -278,7 +285,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     /** NPSH over the design point and the band's corners as the workbench judges it (the engine's `npshMargin` is at the duty only). */
     npsh,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, paging, message: null as string | null };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "viscosity-uncorrected", "short", "no-operating-point", "outside-catalogue"] as const;

@@ -36,6 +36,11 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     stats: res.stats,
     /** Curve sets the engine left out of the search (their points break its rules), with the first reasons. */
     leftOut: res.leftOut,
+    /**
+     * A custom liquid: how the water curves were searched (ANSI/HI 9.6.7 equivalent water duty per speed: B, C_Q, C_H,
+     * C_η, the water duty in SI; or why the duty itself), the rule and the same line as the page; null for water.
+     */
+    liquidSearch: res.liquidSearch,
     paging: res.paging,
     results: res.results.map(searchResultView),
   };
