@@ -24,11 +24,12 @@ const SEARCH_FIELDS: [string, string][] = [
   ["modelId, curveSetId", "ids of the pump model and of the published curve that was searched"],
   ["library", "name of the library the curve comes from"],
   ["curve", "the published curve: speed (rpm) and impellerDiameter (m)"],
-  ["adjustment", "kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio); speed (rpm) and diameter (m) after the adjustment"],
+  ["adjustment", "the pump as its verdict judged it (as the candidates table evaluates it): kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio, solved to deliver the duty flow against the system's head there at the band's demanding edge); speed (rpm) and diameter (m) after the adjustment; note (how the ratio was found, in words)"],
   ["verdict", "{ status, rule, reasons } with a status below, or null when no verdict was computed"],
   ["npsh", "NPSH as the workbench judges it, at the design point and each corner of the system's band: { status (ok, low-margin, cavitation-risk, unknown), marginRatio (the lowest NPSHa/NPSHr), at (where), available (NPSHa there, m), rule }, or null with no verdict; a pump that meets the duty but has a cavitation risk on the band ranks after those that do not"],
-  ["figures", "headAtDuty (m), efficiency (0–1), shaftPower (W), npshRequired (m), npshMargin (NPSHa/NPSHr at the duty), bepRatio (duty flow / BEP flow), inPor, score"],
-  ["reason, warnings", "why the result ranks where it does, in words; cautions (e.g. trim is approximate)"],
+  ["figures", "at the operating point of the adjustment above (where it meets the system's design curve), as the candidates table: operatingPoint { flow (m³/s), head (m) } or null, efficiency (0–1), shaftPower (W), bepRatio (operating flow / BEP flow), inPor; the search's at the typed duty: headAtDuty (m), npshRequired (m), npshMargin (NPSHa/NPSHr at the duty), score"],
+  ["atTypedDuty", "the search's own setting and figures at the typed duty, which rank the result: ratio, speed (rpm), diameter (m), efficiency, shaftPower (W), bepRatio, inPor"],
+  ["reason, warnings", "why the result ranks where it does, in words, from the figures at the typed duty (it says so where they differ from adjustment and figures); cautions (e.g. trim is approximate)"],
 ];
 
 const FIELD_HEAD = ["field", "meaning (SI units)"];

@@ -16,6 +16,7 @@ import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
 import { positiveFilter } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
+import { qt } from "~/engine/quantityText";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
 
@@ -67,6 +68,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     // A custom liquid: searched at the equivalent water duty (ANSI/HI 9.6.7) where the method applies, each verdict on the liquid.
     customLiquid: res.system.input.fluid.kind === "custom" ? res.system.input.fluid.name || "the custom liquid" : null,
     liquidSearch: res.liquidSearch ? { message: res.liquidSearch.message, rule: res.liquidSearch.rule, ranksOnLiquid: res.liquidSearch.ranksOnLiquid } : null,
+    // Which point each row's setting and figures are at, and which point ranks it.
+    figuresRule: res.dutyCheck && res.system.input.duty ? `How, efficiency, vs BEP and shaft power: each pump as its verdict judges it (as the candidates table would show it): its trim or speed solved to deliver the duty flow ${qt("flow", res.system.input.duty.flow)} against the system's head there at the band's demanding edge (${qt("head", res.dutyCheck.governingHead)}, ${res.dutyCheck.governingEdge}), and the figures at its operating point, where that curve meets the system's design curve. The rank is the search's score at the typed duty (${qt("flow", res.system.input.duty.flow)} at ${qt("head", res.system.input.duty.head)}); "why this rank" quotes its figures there and says so where they differ from the row's.` : null,
     hidden: res.hidden,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
@@ -80,7 +83,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       size: r.size,
       curve: curveLabel(r.setSpeed, r.setDiameter),
       method: r.method,
-      ratio: r.ratio,
+      // The setting the verdict judged, with the rule it was found by (the How cell's title).
+      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${r.method === "speed" && r.speed != null ? ` (${Math.round(r.speed)} rpm)` : r.method === "trim" && r.diameter != null ? ` (Ø${qt("diameter", r.diameter)})` : ""}`,
+      howRule: r.ratioNote,
       efficiency: r.efficiency,
       bepRatio: r.bepRatio,
       inPor: r.inPor,
@@ -186,16 +191,17 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty
           {d.stats.rejectedByNpsh ? ` · ${d.stats.rejectedByNpsh} left out because their NPSHr at the duty is above the NPSHa there (${d.npshaAtDuty != null ? fmtQExact(sys, "head", d.npshaAtDuty, [0]) : "—"})` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
+          {d.hidden.overPower ? ` · ${d.hidden.overPower} above the max shaft power at their operating point left out` : ""}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
       ) : null}
       {d.stats && d.customLiquid ? (
         <p className="text-xs caution" data-testid="search-liquid">
           {d.liquidSearch?.message}{" "}
-          {d.liquidSearch?.ranksOnLiquid ? "" : "Ranked on the water curves: the efficiency, shaft power and \"why this rank\" figures are each pump's on water. "}
-          Each row's verdict and its NPSH over the band are judged on {d.customLiquid}, on the pump's own curve corrected for viscosity where
-          ANSI/HI 9.6.7 applies (the verdict says so), and a row that does not meet the duty there ranks after those that do; the candidate
-          page shows every figure on the liquid. <span data-testid="search-liquid-rule">Rule: {d.liquidSearch?.rule}.</span>
+          {d.liquidSearch?.ranksOnLiquid ? "" : "Ranked on the water curves: the \"why this rank\" figures are each pump's on water. "}
+          Each row's setting, efficiency, vs BEP and shaft power, its verdict and its NPSH over the band are judged on {d.customLiquid}, on the
+          pump's own curve corrected for viscosity where ANSI/HI 9.6.7 applies (the verdict says so), and a row that does not meet the duty there
+          ranks after those that do; the candidate page shows every figure on the liquid. <span data-testid="search-liquid-rule">Rule: {d.liquidSearch?.rule}.</span>
         </p>
       ) : null}
       {d.stats && d.leftOut.count ? (
@@ -243,7 +249,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                       {r.library}
                       {r.alsoIn.length ? <div className="text-slate-500">also in {r.alsoIn.join(", ")}</div> : null}
                     </td>
-                    <td>{r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %`}</td>
+                    <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>{r.how}</td>
                     <td className="max-w-xs">
                       <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} />
                     </td>
@@ -261,7 +267,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         </span>
                       ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
                     </td>
-                    <td>{fmtPower(sys, r.shaftPower)}</td>
+                    <td data-testid={`search-power-${r.curveSetId}`}>{fmtPower(sys, r.shaftPower)}</td>
                     <td className="max-w-md text-xs">{r.reason}</td>
                     <td>
                       {d.canWrite ? (
@@ -291,6 +297,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             ) : null}
           </Form>
         )}
+        {d.figuresRule && d.results.length ? <p className="mt-2 text-xs text-slate-600" data-testid="search-figures-rule">{d.figuresRule}</p> : null}
         {d.npshRule ? <p className="mt-2 text-xs text-slate-600" data-testid="search-npsh-rule">NPSH margin over the band: {d.npshRule}. A pump that meets the duty but cavitates somewhere on the band ranks after those that do not.</p> : null}
         <Pager label="Result pages" paging={d.paging} />
       </section>

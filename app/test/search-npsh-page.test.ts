@@ -68,6 +68,6 @@ describe("the search page's NPSH", () => {
   test("a liquid whose B is above 40 keeps the water ranking, and the page says so", async () => {
     // Invented: 900 kg/m³, 10 Pa·s (11 111 cSt): B above 40 at 2900 rpm for this duty (ANSI/HI 9.6.7 from memory).
     const html = await pageHtml(await npshProbeSystem(v, projectId, 5, { kind: "custom", name: "Tar", density: 900, dynamicViscosity: 10, vaporPressure: 100 }));
-    expect(text(html, "search-liquid")).toMatch(/^No equivalent water duty of ANSI\/HI 9\.6\.7 \(from memory\) for Tar \(ν 11111 cSt\): 2900 rpm: B = \d\d\.\d\d, above 40: outside the method, so ranked on the water curves at the duty itself as before .* Ranked on the water curves: the efficiency/);
+    expect(text(html, "search-liquid")).toMatch(/^No equivalent water duty of ANSI\/HI 9\.6\.7 \(from memory\) for Tar \(ν 11111 cSt\): 2900 rpm: B = \d\d\.\d\d, above 40: outside the method, so ranked on the water curves at the duty itself as before .* Ranked on the water curves: the "why this rank" figures are each pump's on water\./);
   });
 });

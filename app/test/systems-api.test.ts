@@ -144,6 +144,7 @@ describe("searchResultView (pure)", () => {
     id: "7", rank: 1, label: "X", method: "trim" as const, ratio: 0.9, speed: 2900, diameter: 0.171, headAtDuty: 30, efficiency: 0.7,
     bepRatio: 1, inPor: true, npshr: 2, npshMargin: 3, shaftPower: 5000, score: 0.6, reason: "r", warnings: [{ code: "w", message: "trim approx" }],
     curveSetId: 7, modelId: 3, model: "X", type: "inline", size: "DN50", library: "L", setSpeed: 2900, setDiameter: 0.19, verdict: null, npsh: null,
+    ratioNote: null, operatingPoint: null, atTypedDuty: { ratio: 0.92, speed: 2900, diameter: 0.175, efficiency: 0.68, shaftPower: 5200, bepRatio: 0.9, inPor: true },
   };
   test("maps method → adjustment.kind and passes a verdict through when the result has one, else null", () => {
     expect(searchResultView(base)).toMatchObject({ modelId: 3, library: "L", verdict: null,

@@ -55,8 +55,9 @@ describe("search on a viscous liquid: ranked at the equivalent water duty", () =
     expect(g.waterDuty.head).toBeCloseTo(r.system.input.duty!.head / g.factors!.head, 6);
     expect(inSI(plan.message)).toMatch(/2900 rpm: B = \d\.\d\d, C_Q 0\.9\d\d, C_H 0\.9\d\d, C_η 0\.\d{3} → water duty 1\d\d(\.\d+)? m³\/h at \d+(\.\d+)? m/);
     expect(plan.rule).toMatch(/Q_W = Q_vis \/ C_Q, H_W = H_vis \/ C_H/);
-    // The row's figures are the liquid's: efficiency C_η × the water curve's at the water duty (78 % peak there, demo probe).
-    expect(r.results[0].efficiency!).toBeCloseTo(0.78 * g.factors!.efficiency, 2);
+    // The rank's figures are the liquid's estimate: efficiency C_η × the water curve's at the water duty (78 % peak there, demo
+    // probe); the row shows its verdict's own figures at the operating point on the corrected curve (search-row-judged.test.ts).
+    expect(r.results[0].atTypedDuty.efficiency!).toBeCloseTo(0.78 * g.factors!.efficiency, 2);
   });
 
   test("the read API carries the plan", async () => {

@@ -1,5 +1,7 @@
 // One duty-point search result as the read API returns it (pure; SI units): the search's own result,
-// which carries the figures, the curve set's model id and library, and the verdict.
+// which carries the figures, the curve set's model id and library, and the verdict. The adjustment and the
+// efficiency, shaft power and BEP position are the verdict's (at the operating point); the search's own at the
+// typed duty, which rank the result, are `atTypedDuty`.
 import type { Candidate } from "~/engine";
 
 /** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
@@ -19,6 +21,12 @@ export type SearchResultIn = Pick<
   verdict: unknown;
   /** NPSH over the design point and the band's corners (the lowest deciding), or null without a verdict. */
   npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string } | null;
+  /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
+  ratioNote: string | null;
+  /** The operating point the figures are at (m³/s, m), null without one. */
+  operatingPoint: { flow: number; head: number } | null;
+  /** The search's setting and figures at the typed duty (what ranks the result). */
+  atTypedDuty: Pick<Candidate, "ratio" | "speed" | "diameter" | "efficiency" | "shaftPower" | "bepRatio" | "inPor">;
 };
 
 export type SearchResultView = {
@@ -32,13 +40,15 @@ export type SearchResultView = {
   library: string;
   /** The published curve searched: speed, rpm; impeller diameter, m. */
   curve: { speed: number | null; impellerDiameter: number | null };
-  /** How the curve meets the duty: none (as published), speed (affinity laws) or trim (approximate). */
-  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null };
+  /** How the pump meets the duty as its verdict judged it: none (as published), speed (affinity laws) or trim (approximate); `note` how the ratio was found. */
+  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null };
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
   /** NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule }, or null. */
   npsh: { status: string; marginRatio: number | null; at: string | null; available: number | null; rule: string } | null;
+  /** operatingPoint, efficiency, shaftPower, bepRatio, inPor: at the operating point judged; headAtDuty, npshRequired, npshMargin, score: the search's at the typed duty. */
   figures: {
+    operatingPoint: { flow: number; head: number } | null;
     headAtDuty: number;
     efficiency: number | null;
     shaftPower: number | null;
@@ -48,6 +58,7 @@ export type SearchResultView = {
     inPor: boolean | null;
     score: number;
   };
+  atTypedDuty: SearchResultIn["atTypedDuty"];
   reason: string;
   warnings: string[];
 };
@@ -65,13 +76,15 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     size: r.size,
     library: r.library,
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
-    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter },
+    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote },
     verdict: r.verdict ?? null,
     npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule } : null,
     figures: {
+      operatingPoint: r.operatingPoint,
       headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,
       npshMargin: r.npshMargin, bepRatio: r.bepRatio, inPor: r.inPor, score: r.score,
     },
+    atTypedDuty: r.atTypedDuty,
     reason: r.reason,
     warnings: r.warnings.map((w) => w.message),
   };

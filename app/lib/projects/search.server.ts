@@ -11,7 +11,7 @@
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
-import { fmtNumExact } from "~/engine/quantityText";
+import { fmtNumExact, qt } from "~/engine/quantityText";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
 import { LRUCache } from "lru-cache";
@@ -146,8 +146,18 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
  * Least recently used dropped first.
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
-/** What the search keeps of a pump judged as offered on the band: its verdict and its NPSH over the band's corners. */
-type Judged = { verdict: Verdict; npsh: NpshJudgement | null };
+/**
+ * The pump as its verdict judged it (evaluateCandidate, as the candidates table): the setting solved to the system's
+ * head at the duty flow at the band's demanding edge (`ratioNote` says how) and its figures at the operating point,
+ * where that curve meets the system's design curve (figures null without one).
+ */
+export type JudgedSetting = {
+  ratio: number; ratioNote: string | null; speed: number | null; diameter: number | null;
+  operatingPoint: { flow: number; head: number } | null;
+  efficiency: number | null; shaftPower: number | null; bepRatio: number | null; inPor: boolean | null;
+};
+/** What the search keeps of a pump judged as offered on the band: its verdict, its NPSH over the band's corners and what it judged. */
+type Judged = { verdict: Verdict; npsh: NpshJudgement | null; shown: JudgedSetting };
 type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Judged | null> };
 const verdictCache = new LRUCache<string, SystemWork>({ max: VERDICT_SYSTEMS_LIMIT });
 function workFor(inputJson: string, input: SystemInput): SystemWork {
@@ -196,7 +206,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
@@ -221,7 +231,6 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
   let duplicates = 0;
   for (const c of res.candidates) {
-    if (filters.maxPowerW && c.shaftPower != null && c.shaftPower > filters.maxPowerW) continue;
     const s = prepared.setOf(c.id);
     let key = prepared.keys.get(c.id);
     if (key === undefined) prepared.keys.set(c.id, (key = curveKey(s)));
@@ -235,9 +244,10 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     if (!g.libraries.includes(lib)) g.libraries.push(lib);
     if (Math.abs(c.score - g.row.score) < 1e-12 && own.has(s.libraryId) && !own.has(g.set.libraryId)) { g.row = c; g.set = s; }
   }
-  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band.
-  let outsideCatalogue = 0;
-  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null }[] = [];
+  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band;
+  // the row shows that setting and its figures at the operating point (the engine's at the typed duty still rank it).
+  let outsideCatalogue = 0, overPower = 0;
+  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; shown: JudgedSetting | null }[] = [];
   for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
     const method = g.row.method === "direct" ? "none" : g.row.method;
     const vk = `${g.set.id}#${method}`;
@@ -246,18 +256,25 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
       try {
         const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
         const e = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) });
-        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh } : null;
+        const f = e.figures;
+        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
+          efficiency: f?.efficiency ?? null, shaftPower: f?.shaftPower ?? null, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null } } : null;
       } catch {
         judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
       }
       verdicts.set(vk, judged);
     }
     const verdict = judged?.verdict ?? null;
+    // The max shaft power filter acts on the power the row shows (its operating point's), before paging: counts stay right.
+    if (filters.maxPowerW && judged?.shown.shaftPower != null && judged.shown.shaftPower > filters.maxPowerW) {
+      overPower++;
+      continue;
+    }
     if (verdict?.status === "outside-catalogue") {
       outsideCatalogue++;
       if (!filters.allowBeyondCatalogue) continue;
     }
-    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null });
+    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, shown: judged?.shown ?? null });
   }
   // Pumps that meet the system rank first, then oversized, then those two with a cavitation risk somewhere on the
   // band, then short, no operating point (stable within a class).
@@ -270,8 +287,9 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
-  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh }, j) => ({
+  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, shown }, j) => ({
     ...rows[first + j],
+    ...shownRow(rows[first + j], shown, system.input.duty!),
     curveSetId: s.id,
     modelId: s.modelId,
     model: s.model,
@@ -285,7 +303,22 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     /** NPSH over the design point and the band's corners as the workbench judges it (the engine's `npshMargin` is at the duty only). */
     npsh,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, paging, message: null as string | null };
+}
+
+/**
+ * A row's setting and figures as its verdict judged them (without a verdict: the search's setting, no figures), the
+ * search's at the typed duty kept apart (`atTypedDuty`: what ranks the row), and its reason saying it quotes the typed
+ * duty where those differ from what is shown.
+ */
+function shownRow(row: EngineCandidate, shown: JudgedSetting | null, duty: { flow: number; head: number }) {
+  const atTypedDuty = { ratio: row.ratio, speed: row.speed, diameter: row.diameter, efficiency: row.efficiency, shaftPower: row.shaftPower, bepRatio: row.bepRatio, inPor: row.inPor };
+  const same = (a: number | null, b: number | null) => a === b || (a != null && b != null && Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b)));
+  const differs = !shown || !same(shown.ratio, row.ratio) || !same(shown.efficiency, row.efficiency) || !same(shown.shaftPower, row.shaftPower) || !same(shown.bepRatio, row.bepRatio);
+  const at = `at the typed duty ${qt("flow", duty.flow)} at ${qt("head", duty.head)}, where it is ranked (${shown ? "not at the operating point its verdict judged" : "not judged"}): `;
+  const reason = differs ? row.reason.replace(/^(#\d+ of \d+: )/, `$1${at}`) : row.reason;
+  const none = { ratioNote: "not judged: the search's setting at the typed duty", operatingPoint: null, efficiency: null, shaftPower: null, bepRatio: null, inPor: null };
+  return { ...(shown ?? { ratio: row.ratio, speed: row.speed, diameter: row.diameter, ...none }), atTypedDuty, reason };
 }
 
 const VERDICT_ORDER = ["meets", "oversized", "viscosity-uncorrected", "short", "no-operating-point", "outside-catalogue"] as const;
