@@ -83,6 +83,22 @@ describe("the booster cases of the edge hunt: the verdict at the shown setting i
     expect(inSI(e.verdict!.reasons.join(" "))).toMatch(/At least lift, new pipe: the curve ends at .* the pump would run past its published curve/);
   });
 
+  test("rounding up is judged, not hidden: with no tolerance above the duty the next whole rpm is oversized", () => {
+    const input = { ...booster(40, 32.6), flowTolerance: { minus: 0, plus: 0 } };
+    const e = evaluate(input, setOf("TFS Meregate 200", 295), adjust("speed"));
+    expect(e.ratio * 2900).toBeCloseTo(1645, 9);
+    expect(Math.min(...e.band.map((b) => b.flow!))).toBeGreaterThan(40 * M3H * (1 + 1e-6)); // above the duty (the verdict's round-off, verdict.ts)
+    expect(e.verdict?.status).toBe("oversized");
+  });
+
+  test("rounding up past the rated speed is judged outside the catalogue (a model rated 1644.5 rpm: invented)", () => {
+    const s = setOf("TFS Meregate 200", 295);
+    const e = evaluateCandidate(booster(40, 32.6), s, adjust("speed"), { catalogue: { ...catalogueOf(s), ratedSpeed: 1644.5 } });
+    expect(e.ratio * 2900).toBeCloseTo(1645, 9); // solved 1644.07 rpm, inside 100 % of 1644.5; 1645 rpm is not
+    expect(e.verdict?.status).toBe("outside-catalogue");
+    expect(e.verdict!.reasons.join(" ")).toMatch(/1645 rpm is 100\.0\d+ % of the rated \d+ rpm, above the allowed 100 %/);
+  });
+
   test("the trimmed diameter is set in whole mm and also shown in the reader's unit", () => {
     const s = setOf("TFS Slipway 125", 195);
     const e = evaluate(booster(40, 38), s, adjust("trim"));
