@@ -3,6 +3,7 @@
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import { pumpsBasis } from "~/lib/projects/power-basis";
+import { publishedOf, settingText } from "~/lib/projects/setting-step";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
@@ -36,12 +37,24 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
   };
 }
 
-/** How the candidate runs, in words, with the trimmed diameter in the reader's units. */
+/**
+ * How the candidate runs, in words: the speed or trimmed impeller as set and judged, in whole rpm or mm (setting-step.ts:
+ * the one rule for what is set and shown), with the solved value it was rounded up from; the diameter also in the reader's unit.
+ */
 export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }, units: UnitChoice): string {
   const a = c.adjustment;
+  const r = c.result;
   const parts: string[] = [];
-  if (a.method === "speed") parts.push(`at ${fmtNum((c.result?.ratio ?? 1) * 100, 1)} % speed${c.result?.speed ? ` (${Math.round(c.result.speed)} rpm)` : ""}`);
-  if (a.method === "trim") parts.push(`trimmed to ${c.result?.diameter ? `Ø${fmtQ(units, "diameter", c.result.diameter)}` : `${fmtNum((c.result?.ratio ?? 1) * 100, 1)} %`}`);
+  if (a.method === "speed" || a.method === "trim") {
+    const ratio = r?.ratio ?? 1;
+    const pub = publishedOf(a.method, ratio, { speed: r?.speed ?? null, diameter: r?.diameter ?? null });
+    const set = settingText(a.method, ratio, pub);
+    const solved = r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${settingText(a.method, r.solvedRatio, pub)}, rounded up to keep the duty` : null;
+    const inReader = a.method === "trim" && r?.diameter != null && units.diameter !== "mm" ? fmtQ(units, "diameter", r.diameter) : null;
+    const more = (xs: (string | null)[]) => (xs.some(Boolean) ? ` (${xs.filter(Boolean).join("; ")})` : "");
+    if (a.method === "speed") parts.push(pub.speed != null ? `at ${fmtNum(ratio * 100, 1)} % speed${more([set, solved])}` : `at ${set} speed${more([solved])}`);
+    else parts.push(`trimmed to ${set}${more([inReader, solved])}`);
+  }
   if (a.arrangement !== "single") parts.push(`${a.dutyPumps} in ${a.arrangement}${a.standbyPumps ? ` + ${a.standbyPumps} standby` : ""}`);
   return parts.length ? ` (${parts.join(", ")})` : "";
 }

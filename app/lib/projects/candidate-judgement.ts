@@ -38,6 +38,7 @@ import {
 } from "~/engine";
 import { fmtPct, qt, qtPair } from "~/engine/quantityText";
 import type { LiquidSolver } from "./candidate-solve";
+import { roundUpSetting, settingText } from "./setting-step";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -230,10 +231,13 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   const at = (c: PumpCurve) => (per.flow >= c.flowMin && per.flow <= c.flowMax ? shaftPowerAt(c, per.flow, rho) : null);
   const times = (p: number | null) => (p == null ? null : p * k);
   const out: SavingOption[] = [{ means: "throttling", power: times(at(ctx.curve)), how: `a valve closed until ${qt("flow", duty.flow)} flows` }];
-  // On the liquid: the ratio solved on the corrected curve, its power there (null when even full speed or impeller falls short).
+  // On the liquid: the ratio solved on the corrected curve (null when even full speed or impeller falls short), rounded up
+  // to the whole rpm or mm a site sets (setting-step.ts, as the candidate's own solve), and its power there.
   const onLiquid = (method: "speed" | "trim", water: RatioSolution) => {
-    const r = ctx.liquid ? ctx.liquid.solve(method, per, water) : water.ratio;
-    return r == null ? null : { r, curve: ctx.liquid ? ctx.liquid.at(method, r) : (method === "speed" ? scaleBySpeed(ctx.base, r) : scaleByTrim(ctx.base, r)).curve };
+    const solved = ctx.liquid ? ctx.liquid.solve(method, per, water) : water.ratio;
+    if (solved == null) return null;
+    const r = roundUpSetting(method, solved, { speed: ctx.base.speed, impellerDiameter: ctx.base.impellerDiameter }).ratio;
+    return { r, curve: ctx.liquid ? ctx.liquid.at(method, r) : (method === "speed" ? scaleBySpeed(ctx.base, r) : scaleByTrim(ctx.base, r)).curve };
   };
   const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
   const spl = sp.status === "ok" && sp.ratio ? onLiquid("speed", sp) : null;
@@ -241,14 +245,14 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
     const rated = catalogue?.ratedSpeed ?? null;
     const speed = ctx.base.speed != null ? ctx.base.speed * spl.r : null;
     const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(speed != null && rated != null ? { speed, ratedSpeed: rated } : { speedRatio: spl.r }) });
-    out.push({ means: "speed", power: times(at(spl.curve)), how: `${fmtPct(spl.r)} speed${speed ? ` (${Math.round(speed)} rpm)` : ""}`, outside });
+    out.push({ means: "speed", power: times(at(spl.curve)), how: `${fmtPct(spl.r)} speed${speed ? ` (${settingText("speed", spl.r, ctx.base)}, the next whole rpm up)` : ""}`, outside });
   }
   const tr = trimForDuty(ctx.base, per);
   const trl = tr.status === "ok" && tr.ratio ? onLiquid("trim", tr) : null;
   if (trl) {
     const d = ctx.base.impellerDiameter != null ? ctx.base.impellerDiameter * trl.r : null;
     const outside = catalogueReasons({ diameter: d, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: trl.r });
-    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (Ø${qt("diameter", d)})` : ""}, approximate`, outside });
+    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (Ø${qt("diameter", d)}, the next whole mm up)` : ""}, approximate`, outside });
   }
   return out;
 }

@@ -1,5 +1,6 @@
 // A candidate's pump as adjusted: the speed or impeller trim as set, or solved so one pump meets its share of the
-// duty against the system's head at the duty flow at the band's demanding edge — on the system's liquid. Where the
+// duty against the system's head at the duty flow at the band's demanding edge — on the system's liquid — then rounded
+// up to what a site sets and the page shows (whole rpm, whole mm: setting-step.ts), the ratio every figure is judged at. Where the
 // water curve is corrected for viscosity (ANSI/HI 9.6.7: viscosity-check.ts), the ratio is solved on the corrected
 // curve: B changes with the speed and the BEP, so the correction is made again at each ratio tried. Pure: used by
 // evaluateCandidate (hydraulics.ts) and the oversized verdict's savings (candidate-judgement.ts).
@@ -7,6 +8,7 @@ import { bisection, correctCurveForViscosity, headAt, scaleBySpeed, scaleByTrim,
 import { qt } from "~/engine/quantityText";
 import type { Adjustment } from "./candidate-input";
 import type { Liquid } from "./viscosity-check";
+import { roundUpSetting, roundingNote } from "./setting-step";
 
 type Method = "speed" | "trim";
 
@@ -51,8 +53,8 @@ export function liquidSolver(base: PumpCurve, fluid: Liquid, curveSpeed: number 
   };
 }
 
-/** The ratio in use and how it was found, in words. */
-export type AdjustedRatio = { ratio: number; note: string | null; warnings: string[] };
+/** The ratio in use and how it was found, in words; `solved`: the ratio solved to the duty before it was rounded up (null when none was). */
+export type AdjustedRatio = { ratio: number; note: string | null; warnings: string[]; solved?: number | null };
 
 /**
  * The speed or trim ratio for a candidate: as set, or solved for one pump's share of the duty (parallel: the flow
@@ -71,16 +73,22 @@ export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: nu
   const perPump = adj.arrangement === "parallel" ? { flow: duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: duty.flow, head: hSys / n } : { flow: duty.flow, head: hSys };
   const where = `the system's head at the duty flow ${qt("flow", duty.flow)}, ${qt("head", hSys)} at ${duty.edge} (typed duty head ${qt("head", duty.typedHead)})`;
   const full = adj.method === "trim" ? "impeller" : "speed";
+  const pub = { speed: base.speed ?? null, impellerDiameter: base.impellerDiameter ?? null };
   // Downhill: no pump head is needed at the duty flow, so there is no speed or trim to solve for (the engine
   // refuses a duty head ≤ 0); the pump is judged as published, with the reason.
   if (hSys <= 0) return { ratio: 1, warnings: [], note: `not solved: ${where} is not above zero, so gravity alone delivers the duty flow and there is no head to ${adj.method === "trim" ? "trim" : "slow"} the pump to; judged at full ${full}` };
   const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
   const warnings = sol.warnings.map((w) => w.message);
+  // The solved ratio rounded up to a whole rpm or mm (setting-step.ts): the setting shown is the setting judged.
+  const rounded = (r: number, how: string): AdjustedRatio => {
+    const set = roundUpSetting(adj.method as "speed" | "trim", r, pub);
+    return { ratio: set.ratio, solved: r, warnings, note: `${how}; ${roundingNote(adj.method as "speed" | "trim", set, pub)}` };
+  };
   if (sol.status === "ok" && sol.ratio) {
-    if (!liquid) return { ratio: sol.ratio, warnings, note: `solved to deliver the duty flow against ${where}` };
+    if (!liquid) return rounded(sol.ratio, `solved to deliver the duty flow against ${where}`);
     const r = liquid.solve(adj.method, perPump, sol);
     if (r === null) return { ratio: 1, warnings, note: `could not be solved on the curve corrected for viscosity (ANSI/HI 9.6.7): ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives on the liquid (on water ${adj.method === "trim" ? "a trim" : "a speed"} of ${(sol.ratio * 100).toFixed(1)} % would do); judged at full ${full}` };
-    return { ratio: r, warnings, note: r === sol.ratio ? `solved to deliver the duty flow against ${where}` : `solved on the curve corrected for viscosity (ANSI/HI 9.6.7) to deliver the duty flow against ${where} (on water: ${(sol.ratio * 100).toFixed(1)} %)` };
+    return rounded(r, r === sol.ratio ? `solved to deliver the duty flow against ${where}` : `solved on the curve corrected for viscosity (ANSI/HI 9.6.7) to deliver the duty flow against ${where} (on water: ${(sol.ratio * 100).toFixed(1)} %)`);
   }
   if (sol.status === "duty-above-curve") {
     const h1 = perPump.flow >= base.flowMin && perPump.flow <= base.flowMax ? headAt(base, perPump.flow) : null;

@@ -50,8 +50,12 @@ describe("the band and the verdict on a system", () => {
     expect(r.band.map((b) => b.edge)).toEqual(["new pipe", "aged pipe"]);
     const [lo, hi] = r.band;
     expect(lo.flow!).toBeGreaterThan(hi.flow!); // aged pipe: higher system curve, less flow (by construction)
-    // Solved at the demanding edge: exactly the duty flow there (our rule; 1e-6 solver round-off).
-    expect(hi.flow! / (100 * M3H)).toBeCloseTo(1, 6);
+    // Solved at the demanding edge to exactly the duty flow there (our rule; 1e-6 solver round-off), then set at the next
+    // whole rpm up (setting-step.ts): at least the duty flow there.
+    const exact = evaluateCandidate(chw(), set, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: r.solvedRatio! }, { catalogue: cat });
+    expect(exact.band[1].flow! / (100 * M3H)).toBeCloseTo(1, 6);
+    expect(r.ratio * 2900).toBe(Math.ceil(r.solvedRatio! * 2900)); // the curve's 2900 rpm (demo data)
+    expect(hi.flow!).toBeGreaterThanOrEqual(100 * M3H);
     expect(r.verdict!.status).toBe("meets");
     expect(r.verdict!.edge).toBe("aged pipe");
     expect(inSI(r.ratioNote ?? "")).toMatch(/system's head at the duty flow 100 m³\/h, \d+\.\d m at aged pipe \(typed duty head 20\.0 m\)/);
@@ -76,7 +80,9 @@ describe("the band and the verdict on a system", () => {
     expect(r.band[1].flow!).toBeGreaterThan(110 * M3H);
     expect(r.verdict!.status).toBe("oversized");
     const text = inSI(r.verdict!.reasons.join(" "));
-    expect(text).toMatch(/Speed to the duty \(\d+\.\d % speed \(\d+ rpm\)\): \d+\.\d\d kW shaft instead of \d+\.\d\d kW now, saving/);
+    expect(text).toMatch(/Speed to the duty \(\d+\.\d % speed \(\d+ rpm, the next whole rpm up\)\): \d+\.\d\d kW shaft instead of \d+\.\d\d kW now, saving/);
+    // The saving's speed is the candidate's own solve at the same edge, rounded up the same way (setting-step.ts): a whole rpm of the curve's 2900.
+    expect(text).toContain(`(${Math.round(solved * 2900)} rpm, the next whole rpm up)`);
     expect(text).toMatch(/Throttling to the duty/);
   });
 
@@ -96,7 +102,7 @@ describe("the band and the verdict on a system", () => {
       impellerDiameter: 0.2,
       points: [[0, 40, null], [10, 39, 0.4], [20, 37, 0.6], [30, 34, 0.7], [40, 30, 0.72], [50, 24, 0.66], [60, 16, 0.5]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null })),
     };
-    // The trim that would meet the duty, as the trim candidate solves it (the saving aims at the same point).
+    // The trim that would meet the duty, as the trim candidate solves it and rounds it up to a whole mm (the saving aims at the same point).
     const trimmed = 0.2 * evaluateCandidate(sys, big, { ...DEFAULT_ADJUSTMENT, method: "trim" }).ratio;
     expect(trimmed).toBeGreaterThan(0.1);
     expect(trimmed).toBeLessThan(0.12);
@@ -106,7 +112,7 @@ describe("the band and the verdict on a system", () => {
       return inSI(r.verdict!.reasons.find((x) => x.startsWith("Trim"))!);
     };
     // Smallest published impeller 1 mm above the trim: not an option, and the reason names both diameters.
-    expect(reasons(trimmed + 0.001)).toMatch(/^Trim to the duty \(impeller trimmed to \d+\.\d % \(Ø\d+ mm\), approximate\) is not an option the maker publishes: the impeller Ø\d+ mm is below the smallest the model publishes \(Ø\d+ mm\): \d+\.\d+ % of it\.$/);
+    expect(reasons(trimmed + 0.001)).toMatch(/^Trim to the duty \(impeller trimmed to \d+\.\d % \(Ø\d+ mm, the next whole mm up\), approximate\) is not an option the maker publishes: the impeller Ø\d+ mm is below the smallest the model publishes \(Ø\d+ mm\): \d+\.\d+ % of it\.$/);
     // 1 mm below it: the saving is offered with its power.
     expect(reasons(trimmed - 0.001)).toMatch(/^Trim to the duty \(.*\): \d+\.\d+ kW shaft instead of \d+\.\d+ kW now, saving/);
   });

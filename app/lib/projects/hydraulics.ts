@@ -176,7 +176,10 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
 export type CandidateEvaluation = {
   status: string;
   message: string;
+  /** The speed or trim ratio every figure is at: as set, or solved to the duty and rounded up to a whole rpm or mm (setting-step.ts). */
   ratio: number;
+  /** The ratio solved to the duty before it was rounded up; null when none was solved (absent in selections frozen before). */
+  solvedRatio?: number | null;
   ratioNote: string | null;
   speed: number | null;
   diameter: number | null;
@@ -356,6 +359,7 @@ export function evaluateCandidate(
     status: op.status,
     message: op.message,
     ratio,
+    solvedRatio: adjusted.solved ?? null,
     ratioNote,
     speed: set.speed != null && adj.method === "speed" ? set.speed * ratio : set.speed,
     diameter: set.impellerDiameter != null && adj.method === "trim" ? set.impellerDiameter * ratio : set.impellerDiameter,

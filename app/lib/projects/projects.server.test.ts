@@ -111,10 +111,12 @@ describe("projects, candidates and selections", () => {
     const bench = await systemWorkbench(eng, s);
     const c = bench.candidates[0];
     expect(c.result?.status).toBe("ok");
-    // Solved to deliver the duty flow at the band's demanding edge (most lift, aged pipe: our rule); the
-    // design curve (nominal level, new pipe) then gets at least as much.
+    // Solved to deliver the duty flow at the band's demanding edge (most lift, aged pipe: our rule) and set at the next
+    // whole rpm up (setting-step.ts): at least the duty flow there, and the design curve (nominal level, new pipe) at least as much.
     const worst = c.result!.band.find((b) => b.edge === "most lift, aged pipe")!;
-    expect(worst.flow!).toBeCloseTo(40 / 3600, 6);
+    expect(worst.flow!).toBeGreaterThanOrEqual(40 / 3600);
+    expect(worst.flow!).toBeLessThan((40 / 3600) * 1.01); // one rpm more gives far less than 1 % more flow (common practice)
+    expect(c.result!.ratio).toBeGreaterThanOrEqual(c.result!.solvedRatio!);
     expect(c.result!.operating!.flow).toBeGreaterThanOrEqual(40 / 3600);
     expect(c.result!.verdict!.status).toBe("meets");
     expect(c.result!.ratio).toBeLessThanOrEqual(1);

@@ -71,6 +71,7 @@ const Result = obj({
   status: str,
   message: str,
   ratio: num,
+  solvedRatio: nullishNum,
   ratioNote: v.nullish(str),
   speed: nullishNum,
   diameter: nullishNum,

@@ -87,7 +87,10 @@ describe("a water curve on a viscous liquid, corrected per ANSI/HI 9.6.7", () =>
     expect(r.viscosity!.status).toBe("corrected");
     expect(inSI(r.ratioNote!)).toMatch(/^solved on the curve corrected for viscosity \(ANSI\/HI 9\.6\.7\) to deliver the duty flow/);
     const edge = r.band.find((b) => b.edge === "most lift, aged pipe")!;
-    expect(edge.flow! / 0.0135).toBeCloseTo(1, 6); // the duty flow (lowLoss) at the demanding edge
+    // Exactly the duty flow (lowLoss) at the demanding edge at the solved ratio; set at the next step up (setting-step.ts), at least it.
+    const exact = evaluateCandidate(lowLoss(0.03), huntCurve, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: r.solvedRatio! });
+    expect(exact.band.find((b) => b.edge === "most lift, aged pipe")!.flow! / 0.0135).toBeCloseTo(1, 6);
+    expect(edge.flow!).toBeGreaterThanOrEqual(0.0135);
     const onWater = speedForDuty(createPumpCurve({ points: toPumpPoints(huntCurve.points) }), { flow: 0.0135, head: edge.head! }, { min: 0.3, max: 1 });
     expect(r.ratio).toBeGreaterThan(onWater.ratio! * 1.001);
   });
