@@ -170,7 +170,8 @@ export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
   let what = "";
   if (c.speed != null && c.ratedSpeed != null) {
     frac = requirePositive("catalogue.speed", c.speed) / requirePositive("catalogue.ratedSpeed", c.ratedSpeed);
-    what = `${Math.round(c.speed)} rpm is ${fmtPctExact(frac, [rMin, rMax])} of the rated ${Math.round(c.ratedSpeed)} rpm`;
+    // Each speed with the decimals that keep it apart from the other ("1645.0 rpm … of the rated 1644.5 rpm", never "1645 … 1645").
+    what = `${fmtNumExact(c.speed, [c.ratedSpeed], 0)} rpm is ${fmtPctExact(frac, [rMin, rMax])} of the rated ${fmtNumExact(c.ratedSpeed, [c.speed], 0)} rpm`;
   } else if (c.speedRatio != null) {
     frac = requirePositive("catalogue.speedRatio", c.speedRatio);
     what = `speed ${fmtPctExact(frac, [rMin, rMax])} of the curve's speed`;
