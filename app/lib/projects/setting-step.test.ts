@@ -44,5 +44,8 @@ describe("a solved ratio rounded up to what a site sets", () => {
   it("a value off its step is shown with one more decimal, never rounded to a step it is not on", () => {
     expect(settingText("speed", 0.873, PUMP)).toBe("2531.7 rpm"); // 0.873 × 2900
     expect(settingText("trim", 0.86, PUMP)).toBe("Ø253.7 mm"); // 0.86 × 295 = 253.7
+    // Half-way values round up as written, not down by float noise: 0.85 × 295 = 250.75 mm (250.74999… in binary).
+    expect(0.85 * 0.295 * 1000).toBeLessThan(250.75);
+    expect(settingText("trim", 0.85, PUMP)).toBe("Ø250.8 mm");
   });
 });

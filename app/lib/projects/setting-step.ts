@@ -58,9 +58,11 @@ export function settingText(method: Method, ratio: number, pub: Published): stri
   const { base, step, kind } = stepOf(method, pub);
   const value = ratio * base;
   const extra = onStep(value, step) ? 0 : 1;
-  if (kind === "rpm") return `${(value).toFixed(extra)} rpm`;
-  if (kind === "mm") return `Ø${(value * 1000).toFixed(extra)} mm`;
-  return `${(value * 100).toFixed(1 + extra)} %`;
+  // The shown number carries float noise (0.85 × 295 mm = 250.74999…): read to 12 significant digits first, so a half-way value rounds as written.
+  const fixed = (x: number, d: number) => Number(x.toPrecision(12)).toFixed(d);
+  if (kind === "rpm") return `${fixed(value, extra)} rpm`;
+  if (kind === "mm") return `Ø${fixed(value * 1000, extra)} mm`;
+  return `${fixed(value * 100, 1 + extra)} %`;
 }
 
 const STEP_WORDS = { rpm: "the next whole rpm", mm: "the next whole mm", "%": "the next 0.1 %" } as const;
