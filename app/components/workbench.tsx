@@ -3,9 +3,9 @@
 import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import { pumpsBasis } from "~/lib/projects/power-basis";
-import { publishedOf, settingText } from "~/lib/projects/setting-step";
+import { publishedOf, settingToken } from "~/lib/projects/setting-step";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtQ, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtNum, fmtQ, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
 import { ListTable } from "./ListTable";
 
@@ -48,12 +48,13 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
   if (a.method === "speed" || a.method === "trim") {
     const ratio = r?.ratio ?? 1;
     const pub = publishedOf(a.method, ratio, { speed: r?.speed ?? null, diameter: r?.diameter ?? null });
-    const set = settingText(a.method, ratio, pub);
-    const solved = r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${settingText(a.method, r.solvedRatio, pub)}, rounded up to keep the duty` : null;
-    const inReader = a.method === "trim" && r?.diameter != null && units.diameter !== "mm" ? fmtQ(units, "diameter", r.diameter) : null;
+    // In the reader's units: a trimmed impeller in mm or inches (its step is a whole millimetre whatever the unit shown).
+    const shown = (x: number) => renderUnits(settingToken(a.method as "speed" | "trim", x, pub), units);
+    const set = shown(ratio);
+    const solved = r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${shown(r.solvedRatio)}, rounded up to keep the duty` : null;
     const more = (xs: (string | null)[]) => (xs.some(Boolean) ? ` (${xs.filter(Boolean).join("; ")})` : "");
     if (a.method === "speed") parts.push(pub.speed != null ? `at ${fmtNum(ratio * 100, 1)} % speed${more([set, solved])}` : `at ${set} speed${more([solved])}`);
-    else parts.push(`trimmed to ${set}${more([inReader, solved])}`);
+    else parts.push(`trimmed to ${set}${more([solved])}`);
   }
   if (a.arrangement !== "single") parts.push(`${a.dutyPumps} in ${a.arrangement}${a.standbyPumps ? ` + ${a.standbyPumps} standby` : ""}`);
   return parts.length ? ` (${parts.join(", ")})` : "";

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet } from "~/lib/libraries";
 import { adjustmentText } from "~/components/workbench";
-import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
+import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 import { inSI } from "~/engine/quantityText";
 import { catalogueOf } from "./projects.server";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, type Adjustment, type SystemInput } from "./hydraulics";
@@ -99,10 +99,13 @@ describe("the booster cases of the edge hunt: the verdict at the shown setting i
     expect(e.verdict!.reasons.join(" ")).toMatch(/1645\.0 rpm is 100\.0\d+ % of the rated 1644\.5 rpm, above the allowed 100 %/);
   });
 
-  test("the trimmed diameter is set in whole mm and also shown in the reader's unit", () => {
+  test("the trimmed diameter is set in whole mm and shown in the reader's unit only", () => {
     const s = setOf("TFS Slipway 125", 195);
     const e = evaluate(booster(40, 38), s, adjust("trim"));
-    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS)).toMatch(/trimmed to Ø182 mm \(7\.17 in; solved Ø181\.4 mm, rounded up to keep the duty\)/); // 182 mm / 25.4 = 7.165 in
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS)).toBe(" (trimmed to Ø182 mm (solved Ø181.4 mm, rounded up to keep the duty))");
+    // 182 mm / 25.4 = 7.165 in; 181.386 mm = 7.141 in, kept apart from the steps beside it (181 mm = 7.126 in): no SI word for a US reader.
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS)).toBe(" (trimmed to Ø7.17 in (solved Ø7.14 in, rounded up to keep the duty))");
+    expect(renderUnits(e.ratioNote!, US_UNITS)).toMatch(/solved impeller Ø7\.14 in, set and judged at Ø7\.17 in: rounded up to the next whole mm/);
   });
 
   test("a ratio typed in stays as typed: nothing solved, nothing rounded, the rpm shown to a tenth when off the step", () => {

@@ -6,6 +6,8 @@
 // setting shown is the setting judged. A value off its step (a ratio typed as a percentage, a selection frozen before
 // this rule) is shown with one more decimal, never rounded to a step it is not on. Pure: hydraulics and the pages.
 
+import { qtExact } from "~/engine/quantityText";
+
 type Method = "speed" | "trim";
 /** The published curve's speed (rpm) and impeller diameter (m), null when it names none. */
 export type Published = { speed: number | null; impellerDiameter: number | null };
@@ -65,6 +67,23 @@ export function settingText(method: Method, ratio: number, pub: Published): stri
   return `${fixed(value * 100, 1 + extra)} %`;
 }
 
+/**
+ * The setting for a text rendered in the reader's units: a trimmed impeller as a diameter quantity token (millimetres or
+ * inches as the reader chose), with the decimals that keep it apart from the whole-mm steps beside it ("Ø186.3 mm" off its
+ * step, "Ø187 mm" or "Ø7.36 in" on it); a speed or a ratio as {@link settingText} (rpm and % read the same in every unit).
+ * @param method speed or trim
+ * @param ratio the ratio (dimensionless)
+ * @param pub the published curve's speed (rpm) and impeller (m)
+ */
+export function settingToken(method: Method, ratio: number, pub: Published): string {
+  const { base, step, kind } = stepOf(method, pub);
+  if (kind !== "mm") return settingText(method, ratio, pub);
+  const value = Number((ratio * base).toPrecision(12));
+  const below = Math.floor(value / step + ON_STEP) * step;
+  const neighbours = onStep(value, step) ? [value - step, value + step] : [below, below + step];
+  return `Ø${qtExact("diameter", value, neighbours)}`;
+}
+
 const STEP_WORDS = { rpm: "the next whole rpm", mm: "the next whole mm", "%": "the next 0.1 %" } as const;
 
 /**
@@ -73,7 +92,7 @@ const STEP_WORDS = { rpm: "the next whole rpm", mm: "the next whole mm", "%": "t
  */
 export function roundingNote(method: Method, r: RoundedSetting, pub: Published): string {
   const { kind } = stepOf(method, pub);
-  const solved = settingText(method, r.solved, pub), set = settingText(method, r.ratio, pub);
+  const solved = settingToken(method, r.solved, pub), set = settingToken(method, r.ratio, pub);
   const what = method === "speed" ? (kind === "rpm" ? "speed" : "speed ratio") : kind === "mm" ? "impeller" : "trim ratio";
   if (r.capped) return `solved ${what} ${solved}; rounding up to ${STEP_WORDS[kind]} would pass the published curve's ${set}, so it is set and judged at ${set}`;
   if (r.ratio === r.solved) return `solved ${what} ${solved}, on a step already: set and judged at ${set}`;
