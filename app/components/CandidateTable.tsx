@@ -43,7 +43,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
   if (view.candidates.length === 0) return null;
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
-    ["Adjustment", (c) => adjustmentText(c, unitSystem).replace(/^ \(|\)$/g, "") || "as published"],
+    ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
     ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],

@@ -39,9 +39,10 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
 
 /**
  * How the candidate runs, in words: the speed or trimmed impeller as set and judged, in whole rpm or mm (setting-step.ts:
- * the one rule for what is set and shown), with the solved value it was rounded up from; the diameter also in the reader's unit.
+ * the one rule for what is set and shown), in the reader's unit; with `solvedToo`, the solved value it was rounded up from
+ * (the candidates table's and the report's "Adjustment"; chart labels and legends stay short).
  */
-export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }, units: UnitChoice): string {
+export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand["result"] }, units: UnitChoice, solvedToo = false): string {
   const a = c.adjustment;
   const r = c.result;
   const parts: string[] = [];
@@ -51,7 +52,8 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
     // In the reader's units: a trimmed impeller in mm or inches (its step is a whole millimetre whatever the unit shown).
     const shown = (x: number) => renderUnits(settingToken(a.method as "speed" | "trim", x, pub), units);
     const set = shown(ratio);
-    const solved = r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${shown(r.solvedRatio)}, rounded up to keep the duty` : null;
+    // The value solved before rounding: in the candidates table's "Adjustment" (and the report's), not in every chart label.
+    const solved = solvedToo && r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${shown(r.solvedRatio)}, rounded up to keep the duty` : null;
     const more = (xs: (string | null)[]) => (xs.some(Boolean) ? ` (${xs.filter(Boolean).join("; ")})` : "");
     if (a.method === "speed") parts.push(pub.speed != null ? `at ${fmtNum(ratio * 100, 1)} % speed${more([set, solved])}` : `at ${set} speed${more([solved])}`);
     else parts.push(`trimmed to ${set}${more([solved])}`);

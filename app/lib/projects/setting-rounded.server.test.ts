@@ -30,7 +30,7 @@ const evaluate = (input: SystemInput, s: LibraryCurveSet, adj: Adjustment) => ev
 
 /** The setting the page shows, read back from its text as a fixed ratio: the first "N rpm" or "ØN mm" (SI units). */
 function shownRatio(method: Method, s: LibraryCurveSet, e: ReturnType<typeof evaluate>): { ratio: number; text: string } {
-  const text = adjustmentText({ adjustment: adjust(method), result: e }, SI_UNITS);
+  const text = adjustmentText({ adjustment: adjust(method), result: e }, SI_UNITS, true);
   const m = method === "speed" ? /(\d+(?:\.\d+)?) rpm/.exec(text) : /Ø(\d+(?:\.\d+)?) mm/.exec(text);
   if (!m) throw new Error(`no setting in "${text}"`);
   return { ratio: method === "speed" ? Number(m[1]) / s.speed! : Number(m[1]) / 1000 / s.impellerDiameter!, text };
@@ -102,9 +102,11 @@ describe("the booster cases of the edge hunt: the verdict at the shown setting i
   test("the trimmed diameter is set in whole mm and shown in the reader's unit only", () => {
     const s = setOf("TFS Slipway 125", 195);
     const e = evaluate(booster(40, 38), s, adjust("trim"));
-    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS)).toBe(" (trimmed to Ø182 mm (solved Ø181.4 mm, rounded up to keep the duty))");
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS, true)).toBe(" (trimmed to Ø182 mm (solved Ø181.4 mm, rounded up to keep the duty))");
+    // Chart labels and legends (the default) stay short: the setting only (a report prints on two pages).
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS)).toBe(" (trimmed to Ø182 mm)");
     // 182 mm / 25.4 = 7.165 in; 181.386 mm = 7.141 in, kept apart from the steps beside it (181 mm = 7.126 in): no SI word for a US reader.
-    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS)).toBe(" (trimmed to Ø7.17 in (solved Ø7.14 in, rounded up to keep the duty))");
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS, true)).toBe(" (trimmed to Ø7.17 in (solved Ø7.14 in, rounded up to keep the duty))");
     expect(renderUnits(e.ratioNote!, US_UNITS)).toMatch(/solved impeller Ø7\.14 in, set and judged at Ø7\.17 in: rounded up to the next whole mm/);
   });
 
