@@ -194,7 +194,8 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
         Curves of one impeller on several panels (head, efficiency, power, NPSHr) share its impeller Ø and speed; each curve is read in its
         own panel’s unit. Efficiency is read from the contours where they cross a head curve when no efficiency curve is traced for that
         impeller. A contour taken with “Follow a colour” is a closed loop; one clicked point by point is open unless “Closed loop” is ticked.
-        With no impeller Ø on any curve the CSV has no impeller column.
+        With no impeller Ø on any curve the CSV has no impeller column. A curve without a Ø is imported without one when the curves next
+        to it in the CSV are at another speed; next to a curve of its own speed that has a Ø, the importer refuses it, so the page asks for it.
       </p>
     </section>
   );

@@ -54,8 +54,8 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
   const csv = useMemo(() => csvOf(s, cals), [s, cals]);
   const rows = csv.trim().split("\n").length - 1;
   // Curves the CSV would lose or the importer refuse (curve-checks.ts): import and export wait for them.
-  const problems = useMemo(() => curveProblems(s), [s]);
-  const blockedWhy = useMemo(() => importBlock(s), [s]);
+  const problems = useMemo(() => curveProblems(s, cals), [s, cals]);
+  const blockedWhy = useMemo(() => importBlock(s, cals), [s, cals]);
   const peaks = useMemo(() => unreadPeaks(s, cals), [s, cals]);
   const blocked = rows === 0 || blockedWhy !== null;
 

@@ -1,11 +1,12 @@
 // What the tracer refuses to send to the import until the user fixes it (curve-checks.ts): two curves
 // of one quantity with the same speed and impeller Ø (the CSV keeps one curve per key, so the other
-// would vanish), an impeller Ø left blank beside curves that have one (the importer refuses a blank
-// key cell), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
+// would vanish), an impeller Ø left blank next to a curve of its speed that has one (the importer refuses
+// that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
 // efficiency level. Invented curves.
 import { describe, expect, it } from "vitest";
 import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, importBlock } from "./curve-checks";
+import { analyseCsv } from "~/lib/import";
 
 const pts = (h0: number) => Array.from({ length: 10 }, (_, i) => ({ u: 100 + 50 * i, v: 500 - h0 * 8 + i * i }));
 const curve = (id: number, panelId: number, impellerMm: number, h0: number, speedRpm = 2900): Curve => ({ id, panelId, kind: "curve", impellerMm, speedRpm, level: 0, points: pts(h0) });
@@ -38,12 +39,17 @@ describe("curve checks before import", () => {
     expect(importBlock(s)).toMatch(/^Fix 2 curves before import/);
   });
 
-  it("flags an impeller Ø left blank beside curves that have one, and a blank speed", () => {
+  it("flags an impeller Ø left blank next to a curve of the same speed that has one, and a blank speed", () => {
     const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 1, 210, 40, NaN)]);
     expect(curveProblems(s)).toEqual([
-      { curveId: 2, message: "Curve 2 has no impeller Ø while other curves have one: type it (the importer refuses a curve without one among curves with one)." },
+      {
+        curveId: 2,
+        message: "Curve 2 has no impeller Ø, and its rows in the CSV come just after those of Curve 1 at the same speed (2900 rpm) with Ø 250 mm: " +
+          "the importer reads rows of one model and speed that follow each other as one curve, so it refuses the blank Ø (it would split that curve); " +
+          "type its Ø. A curve without a Ø is imported without one when the curves next to it in the CSV are at another speed.",
+      },
       { curveId: 3, message: "Curve 3 has no speed: type it in rpm (above zero)." },
-    ]);
+    ]); // source: import/blank-keys.ts rule (same model and speed next to it, with a Ø)
   });
 
   it("flags a curve that no head curve of its speed and impeller takes", () => {
@@ -83,5 +89,44 @@ describe("curve checks before import", () => {
 
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {
     expect(curveProblems(withCurves([curve(1, 1, NaN, 50)]))).toEqual([]);
+  });
+
+  // The importer's rule (import/blank-keys.ts): a blank Ø is "not given" for a set of its own (the same model at another
+  // speed), refused where the set next to it in the CSV has the same speed and a Ø. The tracer runs that rule on its CSV's
+  // key cells (lib/tracer/blank-impellers.ts), so it blocks exactly what the import would refuse.
+  const refusedByImport = (st: TracerState) =>
+    analyseCsv(csvOf(st, calibrations(st))).result.problems.filter((p) => p.severity === "error").map((p) => [p.column, p.code]);
+
+  it("lets a curve without a Ø at another speed through, as the importer does (it was blocked beside curves with one)", () => {
+    const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 30, 1450)]);
+    expect(curveProblems(s)).toEqual([]); // source: blank-keys.ts rule (another speed: a set of its own)
+    expect(importBlock(s)).toBeNull();
+    const a = analyseCsv(csvOf(s, calibrations(s)));
+    expect(a.result.problems.filter((p) => p.severity === "error")).toEqual([]); // source: the importer itself
+    expect(a.result.curveSets.map((c) => [c.key, c.ok])).toEqual([["Invented 50-200|2900|250", true], ["Invented 50-200|1450|", true]]); // source: construction
+  });
+
+  it("blocks exactly where the importer refuses: the CSV's order decides which sets meet", () => {
+    const cases: [string, Curve[], number[]][] = [
+      ["same speed next to it", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45)], [2]],
+      ["same speed, blank first", [curve(1, 1, NaN, 50), curve(2, 1, 250, 45)], [1]],
+      ["another speed between", [curve(1, 1, 250, 50), curve(2, 1, 230, 40, 1450), curve(3, 1, NaN, 45)], []],
+      ["efficiency curve of the blank set flagged too", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 2, NaN, 40)], [2, 3]],
+      ["no Ø on any curve", [curve(1, 1, NaN, 50), curve(2, 1, NaN, 45, 1450)], []],
+    ];
+    for (const [what, curves, flagged] of cases) {
+      const s = withCurves(curves);
+      expect(curveProblems(s).map((p) => p.curveId), what).toEqual(flagged); // source: blank-keys.ts rule on the CSV's order (head curves' order)
+      const refused = refusedByImport(s);
+      expect(refused.length > 0, what).toBe(flagged.length > 0); // source: the importer itself, on the tracer's CSV
+      expect(refused.every(([column, code]) => column === "impeller_mm" && code === "missing-value"), what).toBe(true); // source: same
+    }
+  });
+
+  it("a curve not yet in the CSV (fewer than 3 points) neither is blocked nor keeps its neighbours apart", () => {
+    const empty: Curve = { ...curve(2, 1, 230, 40, 1450), points: [] };
+    const s = withCurves([curve(1, 1, 250, 50), empty, curve(3, 1, NaN, 45)]);
+    expect(curveProblems(s).map((p) => p.curveId)).toEqual([3]); // source: to-csv.ts leaves Curve 2 out, so Curve 3's rows follow Curve 1's (same speed)
+    expect(refusedByImport(s).length).toBeGreaterThan(0); // source: the importer itself
   });
 });

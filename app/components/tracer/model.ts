@@ -153,8 +153,8 @@ export function contourEfficiency(s: TracerState, head: Curve, cals: Map<number,
   return contourReading(s, head, cals).efficiency;
 }
 
-/** A curve's key in the CSV: speed and impeller Ø (blank when not given). */
-export const keyOf = (c: Curve) => `${c.speedRpm}|${impellerGiven(c.impellerMm) ? c.impellerMm : ""}`;
+/** A curve's (or a traced set's) key in the CSV: speed and impeller Ø (blank when not given). */
+export const keyOf = (c: Pick<Curve, "speedRpm" | "impellerMm">) => `${c.speedRpm}|${impellerGiven(c.impellerMm) ? c.impellerMm : ""}`;
 
 /** The head curves of the page, and each curve's quantity and unit (its panel's). */
 function panelsOf(s: TracerState) {

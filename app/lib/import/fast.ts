@@ -13,6 +13,7 @@ import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
 import { efficiencyPlausible, risesTooMuch } from "./point-rules";
+import { looksLikeRating } from "./constant-power";
 import { textCell } from "./text-cells";
 
 const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
@@ -121,6 +122,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   let lowest = 0;
   let prevFlow = 0;
   let best = -1; // best efficiency of the current curve (-1: none given)
+  // the current curve's powers: how many, their least and largest, the flows of the first and last (constant-power.ts)
+  let powCount = 0, powMin = Infinity, powMax = -Infinity, powFirstFlow = NaN, powLastFlow = NaN;
   let curPoints = 0;
   let pointRows = 0;
   let lastModel = "";
@@ -203,6 +206,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
       if (cur && curPoints < 3) return null; // too few points
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
+      if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
       seen.add(key);
@@ -212,6 +216,9 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       curImpeller = impeller;
       curPoints = 0;
       best = -1;
+      powCount = 0;
+      powMin = Infinity;
+      powMax = -Infinity;
     }
     for (let t = 8; t <= 10; t++) {
       const ci = colOf[t];
@@ -238,11 +245,18 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       const eta = (density * G_STANDARD * flow * head) / pow;
       if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
     }
+    if (pow === pow) {
+      if (powCount++ === 0) powFirstFlow = flow;
+      powLastFlow = flow;
+      if (pow < powMin) powMin = pow;
+      if (pow > powMax) powMax = pow;
+    }
     store.lines[store.add(flow, head, eff, pow, num[6])] = line;
     prevFlow = flow;
     curPoints++;
   }
   if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best))) return null;
+  if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null;
   const sets = store.sets.length;
   return packedResult(store, { pointRows, pointsAccepted: store.count, curveSets: sets, curveSetsOk: sets, errors: 0, warnings: 0 });
 }

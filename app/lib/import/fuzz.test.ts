@@ -15,7 +15,7 @@ import { expectEngineTakes } from "./test-helpers";
 const CODES: ProblemCode[] = [
   "not-a-number", "negative", "zero", "missing-value", "missing-model", "flow-not-increasing", "head-rising", "efficiency-over-100",
   "too-few-points", "duplicate-curve", "duplicate-flow", "no-speed", "no-point-values", "extra-cells", "csv-syntax", "mapping", "header-changed",
-  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible",
+  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible", "power-constant",
 ]; // source: types.ts ProblemCode (hand-copied so a new code is noticed here)
 
 
@@ -206,8 +206,9 @@ describe("huge and non-finite numbers", () => {
   it('"NaN", "Infinity", "-Infinity" and "inf" are not numbers: each named on its row', () => {
     const t = H + [ok("0", "10"), ok("NaN", "9"), ok("Infinity", "9"), ok("-Infinity", "9"), ok("inf", "9"), ok("1", "9"), ok("2", "8")].join("\n");
     const a = analyse(t);
-    // (the P/η consistency warnings of these made-up rows are not the subject here)
-    expect(a.result.problems.filter((p) => p.code !== "inconsistent").map((p) => [p.row, p.column, p.code])).toEqual([
+    // (the P/η consistency warnings of these made-up rows, and the power-constant warning of their filler power of 1 kW on
+    // every row, are not the subject here)
+    expect(a.result.problems.filter((p) => p.code !== "inconsistent" && p.code !== "power-constant").map((p) => [p.row, p.column, p.code])).toEqual([
       [3, "flow_m3h", "not-a-number"], [4, "flow_m3h", "not-a-number"], [5, "flow_m3h", "not-a-number"], [6, "flow_m3h", "not-a-number"],
     ]); // source: numbers.ts (only decimal notation is a number)
   });
@@ -223,7 +224,7 @@ describe("huge and non-finite numbers", () => {
   it("1e309 and an overflowing 1e308 kW are refused, never accepted as Infinity", () => {
     const t = H + [ok("0", "10"), ok("1e309", "9"), ok("2", "8", "1e308"), ok("3", "7"), ok("4", "6")].join("\n");
     const a = analyseCsv(t);
-    expect(a.result.problems.filter((p) => p.code !== "inconsistent").map((p) => [p.row, p.column, p.severity])).toEqual([[3, "flow_m3h", "error"], [4, "power_kw", "error"]]); // source: construction (P/η consistency of the made-up rows not the subject)
+    expect(a.result.problems.filter((p) => p.code !== "inconsistent" && p.code !== "power-constant").map((p) => [p.row, p.column, p.severity])).toEqual([[3, "flow_m3h", "error"], [4, "power_kw", "error"]]); // source: construction (P/η consistency and the filler power of 1 kW on every row not the subject)
     expectWellFormed(a, t);
   });
 });

@@ -121,5 +121,6 @@ export { undefused, textCell } from "./text-cells";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";
+export { splittingBlanks, type SplittingBlank } from "./blank-keys";
 export type { Problem, ProblemCode, Severity } from "./types";
 export { applyCellEdits, csvField, EditRefused, MAX_EDITS, type CellEdit } from "./edit";

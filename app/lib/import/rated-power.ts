@@ -10,9 +10,10 @@
  *   motor's rated output, or the pump's power at its rated point; rarely a shaft power curve under a loose name.
  * Neither reading is the shaft power at each point that Dutymark's power field holds, so the column is left unmapped
  * ("ignore"), and checkMapping and the mapping page say what was assumed, by which rule, the other readings and what to
- * choose for each (assumedPowerMessage, power-kinds.ts). The suggestion is made from the header alone: nothing in the
- * importer tells a column that is constant within each curve (a rating) from one that varies (a curve), so the values do
- * not decide it. Pure: no Node or DOM APIs.
+ * choose for each (assumedPowerMessage, power-kinds.ts). The suggestion is made from the header alone: the values do not
+ * decide the mapping. A power column mapped all the same whose values are one figure at every point of a curve is named by
+ * the validation instead, whatever its header (constant-power.ts: a `power-constant` warning on that curve). Pure: no Node
+ * or DOM APIs.
  */
 import { shaftPowerSource } from "./input-power";
 

@@ -23,7 +23,8 @@ export type ProblemCode =
   | "mapping"
   | "header-changed"
   | "run-out"
-  | "inconsistent";
+  | "inconsistent"
+  | "power-constant";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -23,7 +23,8 @@
  * - a curve needs at least 3 good points (too-few-points);
  * - the same (model, speed, impeller) appearing again after other rows, or from another column
  *   block, is a duplicate (duplicate-curve): the first occurrence is kept, the repeat dropped;
- * - a curve set without speed gets a warning (no-speed).
+ * - a curve set without speed gets a warning (no-speed);
+ * - a power the same at every point over 30 % of the flow or more is a warning (power-constant: a motor rating, constant-power.ts).
  * A point with an error is left out of its curve; any error charged to a curve marks it ok: false.
  */
 import type { CurvePoint, CurveSet } from "./curve-schema";
@@ -34,6 +35,7 @@ import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
 import { rowModel, splittingBlanks, type KeyColumn } from "./blank-keys";
+import { constantPowerReason, PowerRun } from "./constant-power";
 import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -82,6 +84,8 @@ interface Building {
   /** The efficiency column's header and unit (for the best-efficiency check), or null without one. */
   effColumn: string | null;
   effUnit: Unit | null;
+  /** The power column's header (for the constant-power check), or null without one. */
+  powerColumn: string | null;
   rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
 }
 
@@ -242,6 +246,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         flowColumn: lr.cells.flow?.column ?? "flow",
         effColumn: lr.cells.efficiency?.column ?? null,
         effUnit: lr.cells.efficiency?.unit ?? null,
+        powerColumn: lr.cells.power?.column ?? null,
         rows: [],
       };
       curves.set(key, b);
@@ -284,6 +289,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     let lowestLine = 0;
     let best = -1; // best efficiency of the accepted points, and its line
     let bestLine = 0;
+    const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
     // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
     // a negative head followed by ordinary points is an error as before.
     let tail = b.rows.length;
@@ -322,6 +328,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         continue;
       } else first = lowest = p.head;
       b.set.points.push(p);
+      if (p.power !== undefined) powers.add(p.flow, p.power, r.line);
       prev = r;
       if (p.head <= lowest) {
         lowest = p.head;
@@ -342,6 +349,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     }
     if (best > 0 && !efficiencyPlausible(best))
       add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);
+    if (powers.flat())
+      add(powers.firstLine, b.powerColumn, "power-constant", constantPowerReason(powers, key, b.powerColumn ?? "power"), key, "warning");
     if (b.set.points.length < 3)
       add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
     if (b.set.speed === null)

@@ -5,3 +5,4 @@ export { colourMask, colourAt, traceMask, traceIsland, normaliseBox, type Rgba, 
 export { crossings, contourGaps, efficiencyFromContours, type Contour, type ContourGap, type Crossing } from "./contours";
 export { cleanPoints, resample, valueAt, engineSmooth, type XY } from "./curves";
 export { tracedCsv, tracedRows, impellerGiven, CSV_HEADER, type TracedSet, type TraceUnits, type Quantity } from "./to-csv";
+export { refusedBlankImpellers, type RefusedBlank } from "./blank-impellers";

@@ -13,7 +13,8 @@
  * contours: between two crossings of one level, contours.ts) and written at its `peaks`, rows of their
  * own (the middle of the innermost contour, when the user took it as the BEP). The impeller column is
  * left out when no set gives an impeller Ø (> 0): the importer reads such curves without one; a blank
- * Ø beside others is written blank, which the importer refuses (the page asks for it first).
+ * Ø beside others is written blank: "not given" for its set, unless the set next to it has the same speed and a Ø, which
+ * the importer refuses (blank-impellers.ts says which; the page asks for the Ø first).
  */
 import { toCsv } from "~/lib/shared/csv";
 import { SI_FACTOR, type Unit } from "~/lib/import";
@@ -53,15 +54,26 @@ function convert(field: "flow" | "head" | "efficiency" | "power" | "npshr", unit
 
 const round = (x: number | null, digits: number) => (x == null || !Number.isFinite(x) ? null : +x.toFixed(digits));
 
+/** A set's head curve as the CSV takes it: a stroke's end cap reaches a pixel or two left of zero flow, and those points are not data. */
+const csvHead = (s: TracedSet) => (s.curves.head ?? []).filter((p) => p.x >= 0);
+
+/** Whether a set has rows in the CSV: a head curve of 3+ points at or right of zero flow. */
+export const inCsv = (s: TracedSet) => csvHead(s).length >= 3;
+
+/** Whether the CSV has an impeller column: some set gives a Ø. */
+export const csvHasImpeller = (sets: readonly TracedSet[]) => sets.some((s) => impellerGiven(s.impellerMm));
+
+/** A set's key cells as the CSV writes them on each of its rows: speed, and impeller Ø (mm, 0.1 mm) or blank. */
+export const csvKeyCells = (s: TracedSet) => ({ speed: s.speedRpm, impeller: impellerGiven(s.impellerMm) ? round(s.impellerMm, 1) : null });
+
 /** The CSV rows (header first) for the traced sets; a set without a head curve of 3+ points is left out. */
 export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points = 15): unknown[][] {
-  const withImpeller = sets.some((s) => impellerGiven(s.impellerMm));
+  const withImpeller = csvHasImpeller(sets);
   const keep = (row: unknown[]) => (withImpeller ? row : row.filter((_, i) => i !== IMPELLER_COLUMN));
   const rows: unknown[][] = [keep(CSV_HEADER)];
   for (const s of sets) {
-    // A stroke's end cap reaches a pixel or two left of zero flow: those points are not data.
-    const head = (s.curves.head ?? []).filter((p) => p.x >= 0);
-    if (head.length < 3) continue;
+    if (!inCsv(s)) continue;
+    const head = csvHead(s);
     const unitOf = (q: Quantity) => s.units?.[q] ?? units[q];
     const kept = resample(head, Math.max(3, points));
     const x0 = kept[0].x, x1 = kept[kept.length - 1].x;
@@ -82,7 +94,7 @@ export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points
         return v == null ? null : convert(q, unitOf(q), target, v);
       };
       rows.push(keep([
-        s.model, s.type ?? "", s.size ?? "", s.speedRpm, impellerGiven(s.impellerMm) ? round(s.impellerMm, 1) : null,
+        s.model, s.type ?? "", s.size ?? "", csvKeyCells(s).speed, csvKeyCells(s).impeller,
         round(convert("flow", units.flow, "m3/h", x), 4), round(convert("head", unitOf("head"), "m", y), 4),
         round(at("efficiency", "%"), 2), round(at("power", "kW"), 4), round(at("npshr", "m"), 4),
       ]));
