@@ -4,7 +4,7 @@
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
-import { bepPositionText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
+import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { energyRows } from "~/components/CandidateEnergy";
@@ -36,6 +36,12 @@ function bandPowerText(band: BandPoint[] | undefined, b: PumpsBasis | null, unit
   const total = range(band, (e) => e.shaftPower, (x) => fmtPower(units, x));
   if (!b || !(band ?? []).some((e) => e.shaftPower != null)) return total;
   return `${range(band, (e) => (e.shaftPower == null ? null : e.shaftPower / b.n), (x) => fmtPower(units, x))} per pump, ${total} ${b.forAll}`;
+}
+
+/** The overload verdict with its rule and numbers; a selection frozen before it was kept says what it holds. */
+function overloadText(f: NonNullable<NonNullable<Cand["result"]>["figures"]>): string {
+  if (f.motorCheck) return f.motorCheck;
+  return f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload");
 }
 
 /** Side-by-side figures of the candidates at their operating points. */
@@ -85,8 +91,9 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
         <div>
           <div>
             {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}${b ? " on each pump" : ""}` : "—"}
-            {f.motorLimit != null ? ` · ${f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload")} · ${fmtPct(f.motorLoadAtDuty, 0)} load${b ? " per pump at the operating point" : ""}` : ""}
+            {f.motorLimit != null ? ` · ${loadText(f.motorLoadAtDuty, mo.rating != null ? f.motorLimit / mo.rating : null)} load${b ? " per pump at the operating point" : ""}` : ""}
           </div>
+          {f.motorLimit != null ? <div data-testid={`motor-check-${c.id}`} className={f.nonOverloading === false ? "font-semibold text-fail" : f.nonOverloading == null ? "font-semibold text-duty-ink" : ""}>{overloadText(f)}{b ? " (one pump)" : ""}</div> : null}
           <div className="text-xs text-slate-600">Suggested{b ? " per pump (each pump has its own motor)" : ""}: {mo.suggestionBasis}.</div>
         </div>
       );

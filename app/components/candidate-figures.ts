@@ -15,6 +15,16 @@ export function bepPercentText(ratio: number, inPor: boolean | null | undefined)
 }
 
 /**
+ * The motor's load at the operating point (shaft power / rating), whole percent with the decimals it needs not to read as
+ * 100 % or as the service factor beside which the motor is judged ("100.4 %", not "100 %").
+ * @param load shaft power / motor rating (dimensionless)
+ * @param serviceFactor the motor's service factor (dimensionless), null when not known
+ */
+export function loadText(load: number | null | undefined, serviceFactor: number | null): string {
+  return fmtPctExact(load, serviceFactor != null && serviceFactor !== 1 ? [1, serviceFactor] : [1], 0);
+}
+
+/**
  * The operating flow as a share of BEP flow, e.g. "69.96 % of BEP flow — outside POR" (not "70 %").
  * @param ratio Q / Q_BEP (dimensionless)
  * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known

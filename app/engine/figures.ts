@@ -15,6 +15,7 @@ import { checkFluid, type Fluid } from "./fluids.ts";
 import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
+import { limitCovers } from "./motor.ts";
 import { fmtNumExact, fmtPctExact, qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
@@ -124,8 +125,16 @@ export interface MaxShaftPower {
   flow: number;
   /** Largest flow at which the power is known (published power, or head and efficiency), m³/s. */
   upTo: number;
-  /** True when power is known to the curve's end flow: only then is `power` the largest on the whole curve. */
+  /** True when power is known to the curve's end flow. */
   toEnd: boolean;
+  /** Smallest flow at which the power is known, m³/s. */
+  from: number;
+  /**
+   * True when power is known from the curve's first flow (or, where the efficiency there is zero — shut-off, power 0/0 —
+   * from the first sample past it). Only with `toEnd` as well is `power` the largest on the whole curve: a power column
+   * that starts past shut-off leaves out the flows where a mixed- or axial-flow pump takes most power.
+   */
+  fromStart: boolean;
 }
 
 /**
@@ -138,34 +147,49 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
   const c = ensurePumpCurve(curve);
   requirePositive("density", density);
   let best: { power: number; flow: number } | null = null;
-  let upTo = -Infinity;
+  let upTo = -Infinity, from = Infinity;
   const consider = (q: number) => {
     const p = shaftPowerAt(c, q, density);
     if (p === null || !Number.isFinite(p)) return;
     if (q > upTo) upTo = q;
+    if (q < from) from = q;
     if (!best || p > best.power) best = { power: p, flow: q };
   };
   for (const q of c.head.x) consider(q);
   const N = 200;
-  for (let i = 0; i <= N; i++) consider(c.flowMin + ((c.flowMax - c.flowMin) * i) / N);
+  const sample = (i: number) => c.flowMin + ((c.flowMax - c.flowMin) * i) / N;
+  for (let i = 0; i <= N; i++) consider(sample(i));
   if (!best) return null;
   const found: { power: number; flow: number } = best;
-  return { power: found.power, flow: found.flow, upTo, toEnd: upTo >= c.flowMax * (1 - 1e-9) };
+  const span = c.flowMax - c.flowMin;
+  const fromStart = from <= c.flowMin + 1e-9 * span || (efficiencyAt(c, c.flowMin) === 0 && from <= sample(1) + 1e-9 * span);
+  return { power: found.power, flow: found.flow, upTo, toEnd: upTo >= c.flowMax * (1 - 1e-9), from, fromStart };
 }
 
 /**
- * Whether a motor limit covers the largest power on the curve: false as soon as the power known so far
- * exceeds it; true only when the power is known to the curve's end; otherwise null (not judged), with a
- * warning that says how far the power is known.
+ * Whether a motor limit covers the largest power on the curve (`limitCovers`, the suggestion's own rule): false as soon
+ * as the power known so far exceeds it; true only when the power is known over the whole curve (from its first flow to
+ * its end); otherwise null (not judged), with a warning that says where the power is known. `text` is the verdict with
+ * its rule and numbers, for the page.
  * @param max the curve's largest shaft power (W at m³/s) and its reach, or null when no power is known
  * @param limit motor rating × service factor, W
  */
-export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null } {
+export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null; text: string } {
   requirePositive("limit", limit);
-  if (!max) return { nonOverloading: null, warning: null };
-  if (max.power > limit) return { nonOverloading: false, warning: `largest power on the curve ${qtExact("power", max.power, [limit])} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}` };
-  if (!max.toEnd) return { nonOverloading: null, warning: `power is known only up to ${qt("flow", max.upTo)}, not to the curve's end: overload past it is not judged (largest power up to there ${qt("power", max.power)}, motor rating × service factor ${qt("power", limit)})` };
-  return { nonOverloading: true, warning: null };
+  const lim = `motor rating × service factor ${qt("power", limit)}`;
+  if (!max) return { nonOverloading: null, warning: null, text: `overload not judged: the curve gives no power (neither power nor efficiency), ${lim}` };
+  const at = `${qtExact("power", max.power, [limit])} at ${qt("flow", max.flow)}`;
+  if (!limitCovers(limit, max.power)) {
+    const warning = `largest power on the curve ${qtExact("power", max.power, [limit])} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}`;
+    return { nonOverloading: false, warning, text: `can overload: largest power on the curve ${at} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}` };
+  }
+  if (!max.toEnd || !max.fromStart) {
+    const where = max.fromStart ? `only up to ${qt("flow", max.upTo)}, not to the curve's end` : max.toEnd ? `only from ${qt("flow", max.from)}, not from the curve's first flow` : `only from ${qt("flow", max.from)} up to ${qt("flow", max.upTo)}, not over the whole curve`;
+    const past = max.fromStart ? "overload past it is not judged" : max.toEnd ? "overload below it is not judged" : "overload outside it is not judged";
+    const warning = `power is known ${where}: ${past} (largest power ${max.fromStart ? "up to there" : "where known"} ${qt("power", max.power)}, ${lim})`;
+    return { nonOverloading: null, warning, text: `overload not judged: ${warning}` };
+  }
+  return { nonOverloading: true, warning: null, text: `non-overloading: largest power on the curve ${at} is within motor rating × service factor ${qtLimit("power", limit, [max.power])}` };
 }
 
 /**

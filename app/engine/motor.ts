@@ -53,6 +53,32 @@ export const IE_EFFICIENCY_TABLE: Record<2 | 4, Record<IeClass, readonly number[
 };
 
 const LARGEST_RATING = IEC_MOTOR_RATINGS_KW[IEC_MOTOR_RATINGS_KW.length - 1] * 1000;
+
+/**
+ * Relative slack in "a motor limit covers a power" (dimensionless): floating-point noise only. 11 kW × service factor 1.15
+ * computes as 12 649.999… W, and a largest power of 12 650 W is covered by it, as 12 650 W / 1.15 picks 11 kW.
+ */
+export const COVERS_SLACK = 1e-9;
+
+/**
+ * A motor's limit, rating × service factor, W, without floating-point noise: 11 kW × 1.15 is 12 650 W, not 12 649.999… W
+ * (which would show as "12.6 kW" beside a largest power of "12.7 kW" it covers).
+ * @param rating motor rated output, W
+ * @param serviceFactor service factor (dimensionless)
+ */
+export function motorLimit(rating: number, serviceFactor: number): number {
+  return Number((requirePositive("rating", rating) * requirePositive("serviceFactor", serviceFactor)).toPrecision(12));
+}
+
+/**
+ * Whether a motor limit covers a power: the one rule of the suggestion and of the overload check, so a suggested motor is
+ * never judged to overload on the power it was suggested for.
+ * @param limit motor rating × service factor, W
+ * @param power shaft power, W
+ */
+export function limitCovers(limit: number, power: number): boolean {
+  return requireNonNegative("power", power) <= requirePositive("limit", limit) * (1 + COVERS_SLACK);
+}
 /** The standard rating below one of the series, W (0 below the smallest). */
 const previousRating = (rating: number) => (IEC_MOTOR_RATINGS_KW.filter((r) => r * 1000 < rating * (1 - 1e-9)).pop() ?? 0) * 1000;
 
@@ -61,8 +87,12 @@ const previousRating = (rating: number) => (IEC_MOTOR_RATINGS_KW.filter((r) => r
  * @param power power to cover, W
  */
 export function nextStandardRating(power: number): number | null {
-  const p = requireNonNegative("power", power) / 1000;
-  for (const r of IEC_MOTOR_RATINGS_KW) if (r >= p * (1 - 1e-9)) return r * 1000;
+  return ratingCovering(requireNonNegative("power", power), 1);
+}
+
+/** The smallest standard rating, W, whose rating × service factor covers a power, W (`limitCovers`); null above the series. */
+function ratingCovering(power: number, sf: number): number | null {
+  for (const r of IEC_MOTOR_RATINGS_KW) if (limitCovers(motorLimit(r * 1000, sf), power)) return r * 1000;
   return null;
 }
 
@@ -82,27 +112,32 @@ export interface MotorSuggestion {
  * @param input.dutyPower shaft power at the duty, W
  * @param input.maxCurvePower largest shaft power anywhere on the curve up to its end, W (null: unknown)
  * @param input.maxCurvePowerUpTo flow up to which that largest power is known, m³/s, when the power data stops before the curve's end (null or absent: to the end)
+ * @param input.maxCurvePowerFrom flow from which that largest power is known, m³/s, when the power data starts after the curve's first flow (null or absent: from its start)
  * @param input.serviceFactor service factor (dimensionless, 1.0–1.5; default 1.0)
  */
-export function suggestMotor(input: { dutyPower: number; maxCurvePower: number | null; maxCurvePowerUpTo?: number | null; serviceFactor?: number }): MotorSuggestion {
+export function suggestMotor(input: { dutyPower: number; maxCurvePower: number | null; maxCurvePowerUpTo?: number | null; maxCurvePowerFrom?: number | null; serviceFactor?: number }): MotorSuggestion {
   if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
   const duty = requireNonNegative("dutyPower", input.dutyPower);
   const max = input.maxCurvePower == null ? null : requireNonNegative("maxCurvePower", input.maxCurvePower);
   const sf = requirePositive("serviceFactor", input.serviceFactor ?? 1);
   if (sf < 1 || sf > 1.5) throw new EngineInputError("serviceFactor", "must be between 1.0 and 1.5");
   const covers = Math.max(duty, max ?? 0);
-  const rating = nextStandardRating(covers / sf);
+  const rating = ratingCovering(covers, sf);
   const upTo = input.maxCurvePowerUpTo == null ? null : requirePositive("maxCurvePowerUpTo", input.maxCurvePowerUpTo);
-  const reach = upTo === null ? "to its end" : `up to ${qt("flow", upTo)} (power known no further: not checked to the curve's end)`;
+  const from = input.maxCurvePowerFrom == null ? null : requireNonNegative("maxCurvePowerFrom", input.maxCurvePowerFrom);
+  const reach = from === null
+    ? upTo === null ? "to its end" : `up to ${qt("flow", upTo)} (power known no further: not checked to the curve's end)`
+    : upTo === null ? `from ${qt("flow", from)} to its end (power not known below ${qt("flow", from)}: not checked there)`
+    : `from ${qt("flow", from)} up to ${qt("flow", upTo)} (power known only there: not checked below it or to the curve's end)`;
   // The power covered never reads as the rating × service factor that fell short of it (7500.4 W is not "7.50 kW" beside an 11 kW pick).
-  const lower = rating === null ? LARGEST_RATING * sf : previousRating(rating) * sf;
+  const lower = rating === null ? motorLimit(LARGEST_RATING, sf) : previousRating(rating) * sf;
   const covered = (p: number) => qtExact("power", p, [lower]);
   const what = max !== null && max > duty
     ? `largest power on the curve ${reach} ${covered(max)} (duty ${qt("power", duty)})`
     : `duty power ${covered(duty)}${max === null ? " (curve maximum unknown: not checked for overload)" : ""}`;
   const basis = rating === null
     ? `${what} is above the largest standard rating (${sf === 1 ? qtLimit("power", LARGEST_RATING, [covers]) : `${qt("power", LARGEST_RATING)} × service factor ${sf} = ${qtLimit("power", lower, [covers])}`})`
-    : `${qt("power", rating)} is the smallest standard rating whose rating × service factor ${sf} = ${qt("power", rating * sf)} covers the ${what}`;
+    : `${qt("power", rating)} is the smallest standard rating whose rating × service factor ${sf} = ${qt("power", motorLimit(rating, sf))} covers the ${what}`;
   return { rating, covers, serviceFactor: sf, basis, source: MOTOR_RATINGS_SOURCE };
 }
 

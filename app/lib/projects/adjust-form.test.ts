@@ -34,6 +34,10 @@ describe("readAdjustForm", () => {
     // Two bad fields: a message for each.
     expect(readAdjustForm(form({ ...base, motorRating: "abc", serviceFactor: "x" }), SI_UNITS).error).toBe("The motor rating must be a number. The service factor must be a number.");
   });
+  it("an efficiency class that is none of IE2–IE4 is refused in words that name the field and the choices (IEC 60034-30-1)", () => {
+    for (const ie of ["IE5", "", "NaN", "ie3"]) expect(readAdjustForm(form({ ...base, ieClass: ie }), SI_UNITS), ie).toEqual({ adjustment: null, error: "The motor efficiency class is one of IE2, IE3, IE4 (IEC 60034-30-1)." });
+    for (const ie of ["IE2", "IE3", "IE4"]) expect(readAdjustForm(form({ ...base, ieClass: ie }), SI_UNITS).adjustment?.ieClass).toBe(ie);
+  });
   it("refuses 1,000 hp as ambiguous and says how to write it; 1000 is 1000 hp", () => {
     expect(readAdjustForm(form({ ...base, motorRating: "1,000" }), US_UNITS).error).toBe("The motor rating “1,000” is ambiguous (a thousands comma or a decimal comma?): write 1000, or 1.");
     // 1 hp = 745.69987158227 W (NIST SP 811)

@@ -11,6 +11,8 @@ const RATIO = "The ratio is 30 % to 120 % (blank: solve for the duty).";
 const DUTY = `The number of duty pumps is a whole number from 1 to ${MAX_DUTY_PUMPS}.`;
 const STANDBY = `The number of standby pumps is a whole number from 0 to ${MAX_STANDBY_PUMPS}.`;
 const SERVICE_FACTOR = "The service factor is 1 to 1.5.";
+const MOTOR = "The motor rating is a number, 0 or more (blank or 0: suggested).";
+const IE_CLASS = `The motor efficiency class is one of ${IE_CLASSES.join(", ")} (IEC 60034-30-1).`;
 export const AdjustmentSchema = v.object({
   method: v.picklist(["none", "speed", "trim"]),
   /** Speed ratio N₂/N₁ or diameter ratio D₂/D₁; null: solve it to hit the duty. */
@@ -19,10 +21,10 @@ export const AdjustmentSchema = v.object({
   dutyPumps: v.pipe(v.number(), v.integer(DUTY), v.minValue(1, DUTY), v.maxValue(MAX_DUTY_PUMPS, DUTY)),
   standbyPumps: v.pipe(v.number(), v.integer(STANDBY), v.minValue(0, STANDBY), v.maxValue(MAX_STANDBY_PUMPS, STANDBY)),
   /** Motor rating W (0: not set) and service factor. */
-  motorRating: v.pipe(v.number(), v.finite(), v.minValue(0), v.maxValue(1e9, "A motor rating above 1 GW? Check the unit.")),
+  motorRating: v.pipe(v.number(MOTOR), v.finite(MOTOR), v.minValue(0, MOTOR), v.maxValue(1e9, "A motor rating above 1 GW? Check the unit.")),
   serviceFactor: v.pipe(v.number(), v.finite(), v.minValue(1, SERVICE_FACTOR), v.maxValue(1.5, SERVICE_FACTOR)),
   /** Motor efficiency class (IEC 60034-30-1); adjustments stored before it parse as IE3. */
-  ieClass: v.optional(v.picklist(IE_CLASSES), DEFAULT_IE_CLASS),
+  ieClass: v.optional(v.picklist(IE_CLASSES, IE_CLASS), DEFAULT_IE_CLASS),
 });
 export type Adjustment = v.InferOutput<typeof AdjustmentSchema>;
 export const DEFAULT_ADJUSTMENT: Adjustment = { method: "none", ratio: null, arrangement: "single", dutyPumps: 1, standbyPumps: 0, motorRating: 0, serviceFactor: 1, ieClass: DEFAULT_IE_CLASS };

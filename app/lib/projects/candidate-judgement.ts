@@ -161,6 +161,9 @@ export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoi
 /** A band point's NPSH as judged (`npshOverBand`). */
 export const npshPointOf = (b: BandPoint): NpshPoint => ({ at: b.edge, flow: b.flow, available: b.npshAvailable ?? null, required: b.npshRequired ?? null, marginRatio: b.npshMarginRatio });
 
+/** The efficiency table's largest rating, W (IEC 60034-30-1 stops at 1000 kW; motor.ts). */
+const IE_TABLE_END = 1e6;
+
 export type MotorFigures = {
   suggestedRating: number | null;
   suggestionBasis: string;
@@ -290,13 +293,16 @@ export function motorFigures(o: {
 }): MotorFigures {
   const warnings: string[] = [];
   const perPump = o.shaftPower != null ? o.shaftPower / o.pumps : null;
-  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: o.maxCurvePower?.power ?? null, maxCurvePowerUpTo: o.maxCurvePower && !o.maxCurvePower.toEnd ? o.maxCurvePower.upTo : null, serviceFactor: o.serviceFactor }) : null;
+  const m = o.maxCurvePower;
+  const s = perPump != null ? suggestMotor({ dutyPower: perPump, maxCurvePower: m?.power ?? null, maxCurvePowerUpTo: m && !m.toEnd ? m.upTo : null, maxCurvePowerFrom: m && !m.fromStart ? m.from : null, serviceFactor: o.serviceFactor }) : null;
   const rating = o.userRating > 0 ? o.userRating : s?.rating ?? null;
   let efficiency: number | null = null;
   if (rating != null) {
-    const me = motorEfficiency(Math.min(rating, 1e6), o.ieClass, polesForSpeed(o.ratedSpeed));
+    const me = motorEfficiency(Math.min(rating, IE_TABLE_END), o.ieClass, polesForSpeed(o.ratedSpeed));
     efficiency = me.efficiency;
     warnings.push(...me.warnings.map((w) => w.message));
+    // A rating typed past the table's end takes its last value, said so (the table stops at 1000 kW).
+    if (rating > IE_TABLE_END) warnings.push(`motor ${qt("power", rating)} is above the efficiency table (${qt("power", IE_TABLE_END)}): the ${qt("power", IE_TABLE_END)} efficiency is used`);
   }
   const drive = o.speedDrive ? DEFAULT_DRIVE_EFFICIENCY : null;
   let energy: ReturnType<typeof annualEnergy> | null = null;

@@ -221,8 +221,9 @@ describe("pipe velocity against the usual range (suction 0.6–1.5 m/s, discharg
 describe("motor and energy from the electrical input", () => {
   it("a curve whose efficiency stops before its end: the motor is not called non-overloading, and the suggestion says how far it was checked (invented curve)", () => {
     const sys: SystemInput = { ...defaultSystemInput(), staticLow: 14, staticHigh: 18, suctionStaticHead: 2, duty: { flow: 40 * M3H, head: 18 } };
+    // η 0 at shut-off (by definition): the power is known from the curve's start (motor-edges: a blank there is judged below).
     const points = (lastEff: number | null) =>
-      [[0, 30, null], [10, 29.5, 0.4], [20, 28, 0.6], [30, 25.5, 0.7], [40, 22, 0.72], [50, 17, 0.66], [60, 10, lastEff]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null }));
+      [[0, 30, 0], [10, 29.5, 0.4], [20, 28, 0.6], [30, 25.5, 0.7], [40, 22, 0.72], [50, 17, 0.66], [60, 10, lastEff]].map(([q, h, e]) => ({ flow: q! * M3H, head: h!, efficiency: e, power: null, npshr: null }));
     const run = (lastEff: number | null) => evaluateCandidate(sys, { points: points(lastEff), speed: 2900, impellerDiameter: 0.2 }, DEFAULT_ADJUSTMENT);
     const short = run(null);
     expect(short.figures!.nonOverloading).toBeNull();

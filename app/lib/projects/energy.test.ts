@@ -41,7 +41,7 @@ describe("energy cost with hours or tariff not given", () => {
     expect(own.lcc).not.toBeNull();
   });
   it("the candidate's figures read a 0 tariff as not given too: no energy cost per year, the kWh still shown", () => {
-    const base = { shaftPower: 2000, maxCurvePower: { power: 2500, flow: 0.01, upTo: 0.02, toEnd: true }, pumps: 1, userRating: 0, serviceFactor: 1, ieClass: "IE3" as const, speedDrive: false, ratedSpeed: 2900, hoursPerYear: 4000, currency: "GBP" };
+    const base = { shaftPower: 2000, maxCurvePower: { power: 2500, flow: 0.01, upTo: 0.02, toEnd: true, from: 0, fromStart: true }, pumps: 1, userRating: 0, serviceFactor: 1, ieClass: "IE3" as const, speedDrive: false, ratedSpeed: 2900, hoursPerYear: 4000, currency: "GBP" };
     const zero = motorFigures({ ...base, tariffPerKWh: 0 });
     expect(zero.annualEnergyKWh).toBeGreaterThan(0);
     expect(zero.annualCost).toBeNull();

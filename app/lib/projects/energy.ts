@@ -91,7 +91,8 @@ export type CandidateEnergy = {
 };
 
 type EvaluatedLike = {
-  adjustment: { method: "none" | "speed" | "trim"; arrangement: "single" | "parallel" | "series"; dutyPumps: number };
+  /** serviceFactor: the motor's, for the overload warning at a step. */
+  adjustment: { method: "none" | "speed" | "trim"; arrangement: "single" | "parallel" | "series"; dutyPumps: number; serviceFactor: number };
   result: {
     ratio: number;
     curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
@@ -158,7 +159,7 @@ export function candidateEnergy(
       const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
       const sysHead = systemHeadFunction(prepareSystem(systemSpec));
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM }, driveEfficiency: drive });
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive });
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [

@@ -5,9 +5,9 @@
 import {
   combinePumps,
   flowPerPump,
-  overloadCheck,
   createPumpCurve,
   EngineInputError,
+  motorLimit,
   operatingFigures,
   pipeHeadLoss,
   prepareSystem,
@@ -31,6 +31,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 
 export * from "./system-input";
 export * from "./candidate-input";
+import { judgeOverload } from "./motor-overload";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, fmtPctSignedExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
@@ -201,6 +202,8 @@ export type CandidateEvaluation = {
     maxPower: number | null;
     motorLimit: number | null;
     nonOverloading: boolean | null;
+    /** The overload verdict with its rule and numbers (motor-overload.ts); absent in selections frozen before it was kept. */
+    motorCheck?: string | null;
     motorLoadAtDuty: number | null;
     /** From the electrical input (shaft / (motor η × drive η)). */
     annualEnergyKWh: number | null;
@@ -305,8 +308,8 @@ export function evaluateCandidate(
       currency: opts.currency ?? "",
     });
     warnings.push(...motor.warnings);
-    const limit = motor.rating != null ? motor.rating * adj.serviceFactor : null;
-    const overload = limit != null ? overloadCheck(f.maxPower, limit) : null;
+    const limit = motor.rating != null ? motorLimit(motor.rating, adj.serviceFactor) : null;
+    const overload = limit != null ? judgeOverload({ mode: input.mode, prepared, curve, combined, arrangement: adj.arrangement, n }, f.maxPower, limit) : null;
     const nonOverloading = overload?.nonOverloading ?? null;
     if (overload?.warning) warnings.push(overload.warning);
     figures = {
@@ -324,6 +327,7 @@ export function evaluateCandidate(
       maxPower: f.maxPower?.power ?? null,
       motorLimit: limit,
       nonOverloading,
+      motorCheck: overload?.text ?? null,
       motorLoadAtDuty: motor.rating != null && f.shaftPower != null ? f.shaftPower / motor.rating : null,
       annualEnergyKWh: motor.annualEnergyKWh,
       annualCost: motor.annualCost,

@@ -27,7 +27,7 @@ export function pumpsBasis(a: Arrangement): PumpsBasis | null {
 
 /** The CSV figures that are one pump's (the others a total of the duty pumps, or not a power-related figure). */
 export const PER_PUMP_FIGURES: ReadonlySet<string> = new Set([
-  "efficiency", "bep_ratio", "npsh_available", "npsh_required", "npsh_margin_ratio", "max_power_on_curve", "motor_non_overloading", "motor_rating",
+  "efficiency", "bep_ratio", "npsh_available", "npsh_required", "npsh_margin_ratio", "max_power_on_curve", "motor_non_overloading", "motor_overload_check", "motor_rating",
   "motor_rating_source", "motor_suggested", "motor_suggestion_basis", "motor_efficiency", "motor_efficiency_source", "drive_efficiency",
   "shaft_power_per_pump", "electrical_input_per_pump",
 ]);

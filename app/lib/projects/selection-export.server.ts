@@ -76,6 +76,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("npsh_not_judged_at", f.result.npsh?.unjudged?.map((p) => `${p.at} (${p.why})`).join("; ") ?? null, "");
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
+  add("motor_overload_check", fig?.motorCheck ?? null, ""); // the verdict with its rule and numbers (absent in selections frozen before)
   add("motor_rating", fig?.motor?.rating ?? null, "W");
   add("motor_rating_source", fig?.motor?.ratingSource ?? null, "");
   add("motor_suggested", fig?.motor?.suggestedRating ?? null, "W");

@@ -65,7 +65,7 @@ const Motor = obj({
 const Figures = obj({
   efficiency: nullishNum, hydraulicPower: nullishNum, shaftPower: nullishNum, bepFlow: nullishNum, bepHead: nullishNum, bepRatio: nullishNum, inPor: v.nullish(v.boolean()),
   npshAvailable: nullishNum, npshRequired: nullishNum, npshMarginRatio: nullishNum, npshStatus: v.nullish(str), maxPower: nullishNum, motorLimit: nullishNum,
-  nonOverloading: v.nullish(v.boolean()), motorLoadAtDuty: nullishNum, annualEnergyKWh: nullishNum, annualCost: nullishNum, motor: v.optional(Motor),
+  nonOverloading: v.nullish(v.boolean()), motorCheck: v.nullish(str), motorLoadAtDuty: nullishNum, annualEnergyKWh: nullishNum, annualCost: nullishNum, motor: v.optional(Motor),
 });
 const Result = obj({
   status: str,

@@ -1,0 +1,36 @@
+// A duty-cycle step that loads the motor above rating × service factor is warned of at its step, with the numbers:
+// a drive run faster than the candidate's set speed, or a flow past the design flow, can overload a motor chosen for the
+// curve as set. Bisected across the limit. Check values: the made-up knot curve (engine/test/curves.ts: 600 W at
+// 10 m³/h), service factors 1.0–1.5 (common practice), the product rule (motor.ts limitCovers).
+import { describe, expect, it } from "vitest";
+import { dutyCycleEnergy, type DutyCycleInput } from "./index.ts";
+import { inSI } from "./quantityText.ts";
+import { knotCurve } from "./test/curves.ts";
+
+const M3H = 1 / 3600;
+const qd = 10 * M3H;
+const base: DutyCycleInput = {
+  curve: knotCurve(),
+  systemHead: (q: number) => 18 * (q / qd) ** 2, // through the design knot: 600 W there
+  designFlow: qd,
+  mode: "fixed-speed",
+  profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }],
+  density: 1000,
+  motor: { rating: 750, efficiency: 0.8 },
+  driveEfficiency: null,
+};
+const overloads = (motor: DutyCycleInput["motor"]) => dutyCycleEnergy({ ...base, motor }).warnings.filter((w) => w.code === "motor-overload-step");
+
+describe("a step above the motor's rating × service factor", () => {
+  it("600 W at 100 % flow: a 600 W motor is not warned of, 599 W is, at its step with its numbers", () => {
+    expect(overloads({ rating: 600, efficiency: 0.8 })).toEqual([]);
+    const w = overloads({ rating: 599, efficiency: 0.8 });
+    expect(w.map((x) => x.parameter)).toEqual(["profile[0]"]);
+    expect(inSI(w[0].message)).toBe("at 100 % flow the motor runs at 100.2 % load, above its rating × service factor 100 %: the shaft power 0.600 kW exceeds 0.599 kW, so the motor overloads at this step (its efficiency taken at full load)");
+  });
+  it("with service factor 1.15: 522 W × 1.15 = 600.3 W covers 600 W, 521 W × 1.15 = 599.15 W does not (shown 0.599 kW beside 0.600 kW)", () => {
+    expect(overloads({ rating: 522, efficiency: 0.8, serviceFactor: 1.15 })).toEqual([]);
+    const w = overloads({ rating: 521, efficiency: 0.8, serviceFactor: 1.15 });
+    expect(inSI(w[0].message)).toMatch(/^at 100 % flow the motor runs at 115\.2 % load, above its rating × service factor 115 %: the shaft power 0\.600 kW exceeds 0\.599 kW, so the motor overloads at this step/);
+  });
+});
