@@ -46,9 +46,9 @@ describe("motor efficiency by IE class (IEC 60034-30-1:2014, from memory)", () =
     expect(motorEfficiency(7500, "IE3", 2).efficiency).toBeCloseTo(0.901, 6);
     expect(motorEfficiency(315000, "IE3", 2).efficiency).toBeCloseTo(0.958, 6);
   });
-  it("below the table warns and uses 0.75 kW; unknown class refused", () => {
-    const r = motorEfficiency(370, "IE3", 4);
-    expect(r.efficiency).toBeCloseTo(0.825, 6);
+  it("below the table (0.12 kW) warns and uses 0.12 kW's 64.8 %; unknown class refused", () => {
+    const r = motorEfficiency(90, "IE3", 4);
+    expect(r.efficiency).toBeCloseTo(0.648, 6);
     expect(r.warnings[0].code).toBe("motor-below-table");
     expect(() => motorEfficiency(7500, "IE9" as never, 4)).toThrow(EngineInputError);
     expect(() => motorEfficiency(2e6, "IE3", 4)).toThrow(EngineInputError);

@@ -7,8 +7,10 @@
  *   (non-overloading selection, common practice), and never less than the duty power.
  * - Motor efficiency: nominal efficiency by IE class at 50 Hz, 2- and 4-pole, from the
  *   IEC 60034-30-1:2014 tables (from memory; check the standard for a contract). Valid
- *   0.75–1000 kW; below 0.75 kW the 0.75 kW value is used with a warning; 200 kW and above
- *   use the 200 kW value (the standard's values stay constant there).
+ *   0.12–1000 kW, the standard's range; below 0.12 kW (outside it) the 0.12 kW value is used
+ *   with a warning; 200 kW and above use the 200 kW value (the standard's values stay constant
+ *   there). A rating between two table entries takes the lower entry's efficiency, with a
+ *   warning (the standard interpolates intermediate outputs; that formula is not applied here).
  *   Full-load values are used at every load (part-load efficiency is lower: the energy is
  *   slightly understated below about 50 % load).
  * - Drive (VFD) losses when a speed is set: drive efficiency 97 % (common practice for
@@ -36,19 +38,27 @@ export const DEFAULT_DRIVE_EFFICIENCY = 0.97;
 
 export const MOTOR_EFFICIENCY_SOURCE = "IEC 60034-30-1:2014 nominal efficiencies, 50 Hz (from memory)";
 
-/** Rated outputs of the efficiency table, kW. */
-const IE_KW = [0.75, 1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 11, 15, 18.5, 22, 30, 37, 45, 55, 75, 90, 110, 132, 160, 200];
-/** Nominal efficiencies in %, by poles and class, one per IE_KW entry (IEC 60034-30-1:2014, from memory). */
+/**
+ * Rated outputs of the efficiency table, kW: the standard's from 0.12 kW (0.20 and 0.40 kW are in its tables though not in
+ * IEC_MOTOR_RATINGS_KW) to 200 kW (its values stay constant from 200 to 1000 kW).
+ */
+export const IE_TABLE_KW: readonly number[] = [0.12, 0.18, 0.2, 0.25, 0.37, 0.4, 0.55, 0.75, 1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 11, 15, 18.5, 22, 30, 37, 45, 55, 75, 90, 110, 132, 160, 200];
+/**
+ * Nominal efficiencies in %, by poles and class, one per IE_TABLE_KW entry: IEC 60034-30-1:2014, the 50 Hz tables for IE2,
+ * IE3 and IE4 (from memory — verify against the standard; Tables 3, 5 and 7 by a numbering remembered unsurely).
+ * 0.12–0.55 kW (the first seven values of each row), from memory — verify against the standard: IE2 and IE3, 2- and 4-pole,
+ * remembered with confidence; IE4 at 0.12–0.55 kW, 2- and 4-pole, less surely (check those first). 0.75 kW up as before.
+ */
 export const IE_EFFICIENCY_TABLE: Record<2 | 4, Record<IeClass, readonly number[]>> = {
   2: {
-    IE2: [77.4, 79.6, 81.3, 83.2, 84.6, 85.8, 87.0, 88.1, 89.4, 90.3, 90.9, 91.3, 92.0, 92.5, 92.9, 93.2, 93.8, 94.1, 94.3, 94.6, 94.8, 95.0],
-    IE3: [80.7, 82.7, 84.2, 85.9, 87.1, 88.1, 89.2, 90.1, 91.2, 91.9, 92.4, 92.7, 93.3, 93.7, 94.0, 94.3, 94.7, 95.0, 95.2, 95.4, 95.6, 95.8],
-    IE4: [83.5, 85.2, 86.5, 88.0, 89.1, 90.0, 90.9, 91.7, 92.6, 93.3, 93.7, 94.0, 94.5, 94.8, 95.0, 95.3, 95.6, 95.8, 96.0, 96.2, 96.3, 96.5],
+    IE2: [53.6, 60.4, 61.9, 64.8, 69.5, 70.4, 74.1, 77.4, 79.6, 81.3, 83.2, 84.6, 85.8, 87.0, 88.1, 89.4, 90.3, 90.9, 91.3, 92.0, 92.5, 92.9, 93.2, 93.8, 94.1, 94.3, 94.6, 94.8, 95.0],
+    IE3: [60.8, 65.9, 67.2, 69.7, 73.8, 74.6, 77.8, 80.7, 82.7, 84.2, 85.9, 87.1, 88.1, 89.2, 90.1, 91.2, 91.9, 92.4, 92.7, 93.3, 93.7, 94.0, 94.3, 94.7, 95.0, 95.2, 95.4, 95.6, 95.8],
+    IE4: [66.5, 70.8, 71.9, 74.3, 78.1, 78.9, 81.5, 83.5, 85.2, 86.5, 88.0, 89.1, 90.0, 90.9, 91.7, 92.6, 93.3, 93.7, 94.0, 94.5, 94.8, 95.0, 95.3, 95.6, 95.8, 96.0, 96.2, 96.3, 96.5],
   },
   4: {
-    IE2: [79.6, 81.4, 82.8, 84.3, 85.5, 86.6, 87.7, 88.7, 89.8, 90.6, 91.2, 91.6, 92.3, 92.7, 93.1, 93.5, 94.0, 94.2, 94.5, 94.7, 94.9, 95.1],
-    IE3: [82.5, 84.1, 85.3, 86.7, 87.7, 88.6, 89.6, 90.4, 91.4, 92.1, 92.6, 93.0, 93.6, 93.9, 94.2, 94.6, 95.0, 95.2, 95.4, 95.6, 95.8, 96.0],
-    IE4: [85.7, 87.2, 88.2, 89.5, 90.4, 91.1, 91.9, 92.6, 93.3, 93.9, 94.2, 94.5, 94.9, 95.2, 95.4, 95.7, 96.0, 96.1, 96.3, 96.4, 96.6, 96.7],
+    IE2: [59.1, 64.7, 65.9, 68.5, 72.7, 73.5, 77.1, 79.6, 81.4, 82.8, 84.3, 85.5, 86.6, 87.7, 88.7, 89.8, 90.6, 91.2, 91.6, 92.3, 92.7, 93.1, 93.5, 94.0, 94.2, 94.5, 94.7, 94.9, 95.1],
+    IE3: [64.8, 69.9, 71.1, 73.5, 77.3, 78.0, 80.8, 82.5, 84.1, 85.3, 86.7, 87.7, 88.6, 89.6, 90.4, 91.4, 92.1, 92.6, 93.0, 93.6, 93.9, 94.2, 94.6, 95.0, 95.2, 95.4, 95.6, 95.8, 96.0],
+    IE4: [69.8, 74.7, 75.8, 77.9, 81.1, 81.7, 83.9, 85.7, 87.2, 88.2, 89.5, 90.4, 91.1, 91.9, 92.6, 93.3, 93.9, 94.2, 94.5, 94.9, 95.2, 95.4, 95.7, 96.0, 96.1, 96.3, 96.4, 96.6, 96.7],
   },
 };
 
@@ -154,10 +164,15 @@ export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CL
   const row = IE_EFFICIENCY_TABLE[poles][ieClass];
   const warnings: EngineWarning[] = [];
   if (kw > 1000) throw new EngineInputError("rating", `is above ${qt("power", 1e6)}, the end of the IEC 60034-30-1 table`);
-  if (kw < IE_KW[0]) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} is below the table (${qt("power", 750)}): the ${qt("power", 750)} efficiency is used` });
+  const pct = (j: number) => `${row[j].toFixed(1)} %`;
+  const at = (j: number) => `${qt("power", IE_TABLE_KW[j] * 1000)} (${pct(j)})`;
+  // Outside the standard's range (below 0.12 kW): its smallest entry, which overstates a smaller motor's efficiency.
+  if (kw < IE_TABLE_KW[0] * (1 - 1e-9)) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} is below the IEC 60034-30-1 table, which starts at ${qt("power", IE_TABLE_KW[0] * 1000)}: its ${pct(0)} is used (a smaller motor's efficiency is lower: energy understated)` });
   // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
   let i = 0;
-  while (i + 1 < IE_KW.length && IE_KW[i + 1] <= kw * (1 + 1e-9)) i++;
+  while (i + 1 < IE_TABLE_KW.length && IE_TABLE_KW[i + 1] <= kw * (1 + 1e-9)) i++;
+  const between = kw > IE_TABLE_KW[i] * (1 + 1e-9) && i + 1 < IE_TABLE_KW.length;
+  if (between) warnings.push({ code: "motor-between-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} lies between the IEC 60034-30-1 table's ${at(i)} and ${at(i + 1)}: the lower entry's ${pct(i)} is used (conservative; the standard's interpolation for intermediate outputs is not applied)` });
   return { efficiency: row[i] / 100, warnings };
 }
 
