@@ -196,6 +196,8 @@ export function CurvesEditor(props: { s: TracerState; set: (f: (s: TracerState) 
         impeller. A contour taken with “Follow a colour” is a closed loop; one clicked point by point is open unless “Closed loop” is ticked.
         With no impeller Ø on any curve the CSV has no impeller column. A curve without a Ø is imported without one when the curves next
         to it in the CSV are at another speed; next to a curve of its own speed that has a Ø, the importer refuses it, so the page asks for it.
+        A curve without a speed is imported without one, with the importer’s no-speed warning, when the curves next to it in the CSV have
+        another Ø; next to a curve that has a speed and its Ø (any Ø, when its own is blank too), the importer refuses it, so the page asks for it.
       </p>
     </section>
   );

@@ -8,7 +8,8 @@ import { loadImage, loadPdfPage, type Picture } from "./load-picture";
 import { PictureCanvas, type Selection, type Tool } from "./PictureCanvas";
 import { AxesEditor, CurvesEditor } from "./Sidebar";
 import { PeakNotice } from "./PeakNotice";
-import { curveProblems, importBlock } from "./curve-checks";
+import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
+import { NoSpeedNotice } from "./NoSpeedNotice";
 import { calibrations, csvOf, initialState, keptPoints, takeIsland, unreadPeaks, type TracerState } from "./model";
 import { peakNote } from "~/lib/tracer/peak";
 
@@ -57,6 +58,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
   const problems = useMemo(() => curveProblems(s, cals), [s, cals]);
   const blockedWhy = useMemo(() => importBlock(s, cals), [s, cals]);
   const peaks = useMemo(() => unreadPeaks(s, cals), [s, cals]);
+  const noSpeed = useMemo(() => curveWarnings(s, cals, problems), [s, cals, problems]);
   const blocked = rows === 0 || blockedWhy !== null;
 
   const overlay = useMemo(() => {
@@ -187,6 +189,7 @@ export function TracerWorkbench(props: { src: string; type: string; filename: st
             <input type="number" min={3} max={60} className="field w-20" value={s.pointsPerCurve} onChange={(e) => set((x) => ({ ...x, pointsPerCurve: Math.min(60, Math.max(3, Number(e.target.value) || 15)) }))} />
           </label>
         </div>
+        <NoSpeedNotice warnings={noSpeed} />
         <PeakNotice peaks={peaks} flowUnit={s.flowUnit} onTake={(id, taken) => set((x) => ({ ...x, curves: x.curves.map((c) => (c.id === id ? { ...c, peakAtMidpoint: taken } : c)) }))} />
         <textarea readOnly className="field h-32 w-full font-mono text-xs" value={csv} aria-label="Traced points as CSV" data-testid="traced-csv" />
         {blockedWhy ? (

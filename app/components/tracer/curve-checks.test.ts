@@ -5,7 +5,7 @@
 // efficiency level. Invented curves.
 import { describe, expect, it } from "vitest";
 import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
-import { curveProblems, importBlock } from "./curve-checks";
+import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
 import { analyseCsv } from "~/lib/import";
 
 const pts = (h0: number) => Array.from({ length: 10 }, (_, i) => ({ u: 100 + 50 * i, v: 500 - h0 * 8 + i * i }));
@@ -21,6 +21,10 @@ const withCurves = (curves: Curve[]): TracerState => ({
   ],
   curves,
 });
+
+// The importer's errors on the tracer's CSV, as [column, code].
+const refusedByImport = (st: TracerState) =>
+  analyseCsv(csvOf(st, calibrations(st))).result.problems.filter((p) => p.severity === "error").map((p) => [p.column, p.code]);
 
 describe("curve checks before import", () => {
   it("passes distinct curves", () => {
@@ -39,8 +43,8 @@ describe("curve checks before import", () => {
     expect(importBlock(s)).toMatch(/^Fix 2 curves before import/);
   });
 
-  it("flags an impeller Ø left blank next to a curve of the same speed that has one, and a blank speed", () => {
-    const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 1, 210, 40, NaN)]);
+  it("flags an impeller Ø left blank next to a curve of the same speed that has one, and a speed of zero", () => {
+    const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 1, 210, 40, 0)]);
     expect(curveProblems(s)).toEqual([
       {
         curveId: 2,
@@ -48,8 +52,9 @@ describe("curve checks before import", () => {
           "the importer reads rows of one model and speed that follow each other as one curve, so it refuses the blank Ø (it would split that curve); " +
           "type its Ø. A curve without a Ø is imported without one when the curves next to it in the CSV are at another speed.",
       },
-      { curveId: 3, message: "Curve 3 has no speed: type it in rpm (above zero)." },
-    ]); // source: import/blank-keys.ts rule (same model and speed next to it, with a Ø)
+      { curveId: 3, message: "Curve 3 has speed 0 rpm: it must be above zero." },
+    ]); // source: import/blank-keys.ts rule (same model and speed next to it, with a Ø); validate.ts (a speed must be above zero)
+    expect(refusedByImport(s)).toContainEqual(["speed_rpm", "zero"]); // source: the importer itself, on the tracer's CSV
   });
 
   it("flags a curve that no head curve of its speed and impeller takes", () => {
@@ -94,8 +99,6 @@ describe("curve checks before import", () => {
   // The importer's rule (import/blank-keys.ts): a blank Ø is "not given" for a set of its own (the same model at another
   // speed), refused where the set next to it in the CSV has the same speed and a Ø. The tracer runs that rule on its CSV's
   // key cells (lib/tracer/blank-impellers.ts), so it blocks exactly what the import would refuse.
-  const refusedByImport = (st: TracerState) =>
-    analyseCsv(csvOf(st, calibrations(st))).result.problems.filter((p) => p.severity === "error").map((p) => [p.column, p.code]);
 
   it("lets a curve without a Ø at another speed through, as the importer does (it was blocked beside curves with one)", () => {
     const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 30, 1450)]);
@@ -128,5 +131,89 @@ describe("curve checks before import", () => {
     const s = withCurves([curve(1, 1, 250, 50), empty, curve(3, 1, NaN, 45)]);
     expect(curveProblems(s).map((p) => p.curveId)).toEqual([3]); // source: to-csv.ts leaves Curve 2 out, so Curve 3's rows follow Curve 1's (same speed)
     expect(refusedByImport(s).length).toBeGreaterThan(0); // source: the importer itself
+  });
+
+  // The same rule for a blank speed (import/blank-keys.ts): "not given" for a set of its own (the same model with another
+  // Ø), with the importer's no-speed warning; refused where the set next to it in the CSV has the same Ø and a speed, or
+  // its own Ø is blank too (or no curve has one). The tracer runs it on its CSV's key cells (lib/tracer/blank-keys.ts).
+  const importOf = (st: TracerState) => analyseCsv(csvOf(st, calibrations(st))).result;
+  const noSpeedKeys = (st: TracerState) => importOf(st).problems.filter((p) => p.code === "no-speed").map((p) => p.curveKey);
+
+  it("lets a curve without a speed at a Ø of its own through, with the importer's no-speed warning (it was blocked outright)", () => {
+    const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, 230, 45, NaN)]);
+    expect(curveProblems(s)).toEqual([]); // source: blank-keys.ts rule (another Ø next to it: a set of its own)
+    expect(importBlock(s)).toBeNull();
+    const r = importOf(s);
+    expect(r.problems.filter((p) => p.severity === "error")).toEqual([]); // source: the importer itself, on the tracer's CSV
+    expect(r.curveSets.map((c) => [c.key, c.ok])).toEqual([["Invented 50-200|2900|250", true], ["Invented 50-200||230", true]]); // source: construction
+    const warning = r.problems.find((p) => p.code === "no-speed")!;
+    expect(warning.curveKey).toBe("Invented 50-200||230"); // source: the importer itself
+    const w = curveWarnings(s);
+    expect(w).toEqual([
+      {
+        curveId: 2,
+        message: "Curve 2 (impeller Ø 230 mm) has no speed: no curve next to it in the CSV has its impeller Ø and a speed, so the importer takes it " +
+          "as a curve of its own without one, with the importer's warning “no speed given for this curve”. Without a speed, a speed change for this " +
+          "pump is set and judged as a percentage of the curve's speed, never in rpm against a rated speed, and on a viscous liquid the ANSI/HI 9.6.7 " +
+          "correction, which needs the speed, is not made. Type its speed if the chart gives one.",
+      },
+    ]); // source: setting-step.ts (a ratio in 0.1 % where the curve names no speed), verdict.ts (rpm against the rated speed only with both), viscosity-check.ts (B needs the speed)
+    expect(w[0].message).toContain(`“${warning.reason.split(";")[0]}”`); // source: the importer's own words
+  });
+
+  it("blocks a blank speed exactly where the importer refuses it, and warns exactly where it warns", () => {
+    const cases: [string, Curve[], number[], number[]][] = [
+      ["same Ø next to it, with a speed", [curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN)], [2], []],
+      ["same Ø, blank first", [curve(1, 1, 250, 50, NaN), curve(2, 1, 250, 45)], [1], []],
+      ["another Ø next to it", [curve(1, 1, 250, 50), curve(2, 1, 230, 45, NaN)], [], [2]],
+      ["another Ø between", [curve(1, 1, 250, 50), curve(2, 1, 230, 40), curve(3, 1, 250, 45, NaN)], [], [3]],
+      ["its Ø blank too, next to a curve with a speed and a Ø", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45, NaN)], [2], []],
+      ["no Ø on any curve, next to a curve with a speed", [curve(1, 1, NaN, 50), curve(2, 1, NaN, 45, NaN)], [2], []],
+      ["no Ø and no speed, alone", [curve(1, 1, NaN, 50, NaN)], [], [1]],
+      ["no speed on either, each its own Ø", [curve(1, 1, 250, 50, NaN), curve(2, 1, 230, 45, NaN)], [], [1, 2]],
+      ["efficiency curve of the refused set flagged too", [curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN), curve(3, 2, 250, 40, NaN)], [2, 3], []],
+      ["its Ø blank next to a Ø without a speed", [curve(1, 1, 250, 50, NaN), curve(2, 1, NaN, 45, NaN)], [2], [1]],
+    ];
+    for (const [what, curves, flagged, warned] of cases) {
+      const s = withCurves(curves);
+      expect(curveProblems(s).map((p) => p.curveId), what).toEqual(flagged); // source: blank-keys.ts rule on the CSV's order (head curves' order)
+      const refused = refusedByImport(s);
+      expect(refused.length > 0, what).toBe(flagged.length > 0); // source: the importer itself, on the tracer's CSV
+      expect(refused.every(([column, code]) => (column === "speed_rpm" || column === "impeller_mm") && code === "missing-value"), what).toBe(true); // source: same
+      const w = curveWarnings(s);
+      expect(w.map((x) => x.curveId), what).toEqual(warned); // source: construction (the sets the importer takes without a speed)
+      const dia = (id: number) => curves.find((c) => c.id === id)!.impellerMm;
+      expect(noSpeedKeys(s), what).toEqual(warned.map((id) => `Invented 50-200||${Number.isNaN(dia(id)) ? "" : dia(id)}`)); // source: the importer itself
+      for (const x of [...curveProblems(s), ...w]) expect(x.message, what).not.toMatch(/NaN/);
+    }
+  });
+
+  it("names the rule and the curve next to it when it refuses a blank speed", () => {
+    expect(curveProblems(withCurves([curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN)]))[0].message).toBe(
+      "Curve 2 has no speed, and its rows in the CSV come just after those of Curve 1 at 2900 rpm with the same impeller Ø (250 mm): the importer " +
+        "reads rows of one model and impeller Ø that follow each other as one curve, so it refuses the blank speed (it would split that curve); type its " +
+        "speed. A curve without a speed is imported without one, with the importer's warning “no speed given for this curve”, when the curves next to " +
+        "it in the CSV have another impeller Ø.",
+    ); // source: blank-keys.ts rule (same model and Ø next to it, with a speed)
+    expect(curveProblems(withCurves([curve(1, 1, NaN, 50, NaN), curve(2, 1, 230, 45)]))[0].message).toBe(
+      "Curve 1 has no speed and no impeller Ø, and its rows in the CSV come just before those of Curve 2 at 2900 rpm with Ø 230 mm: with neither key " +
+        "nothing tells its rows from that curve's, so the importer refuses the blank speed (it would split that curve); type its speed. A curve without " +
+        "a speed is imported without one, with the importer's warning “no speed given for this curve”, when it has an impeller Ø and the curves next " +
+        "to it in the CSV have another.",
+    ); // source: blank-keys.ts rule (its other key blank too)
+    expect(curveProblems(withCurves([curve(1, 1, 250, 50, NaN), curve(2, 1, NaN, 45, NaN)]))[0].message).toBe(
+      "Curve 2 has no impeller Ø and no speed, and its rows in the CSV come just after those of Curve 1 with Ø 250 mm and no speed: with neither key " +
+        "nothing tells its rows from that curve's, so the importer refuses the blank Ø (it would split that curve); type its Ø. A curve without a Ø " +
+        "is imported without one when it has a speed and the curves next to it in the CSV are at another speed.",
+    ); // source: blank-keys.ts rule (its other key blank too)
+  });
+
+  it("names a key without a speed as such (it read 'at NaN rpm')", () => {
+    const s = withCurves([curve(1, 1, 250, 50, NaN), curve(2, 1, 250, 45, NaN), curve(3, 2, 240, 40, NaN)]);
+    expect(curveProblems(s).map((p) => p.message)).toEqual([
+      "Curve 1 and Curve 2 are both head curves with no speed and impeller Ø 250 mm: the CSV keeps one curve per speed and impeller, so give each its own Ø (or speed) or remove one.",
+      "Curve 1 and Curve 2 are both head curves with no speed and impeller Ø 250 mm: the CSV keeps one curve per speed and impeller, so give each its own Ø (or speed) or remove one.",
+      "Curve 3 (efficiency) has no head curve with no speed and impeller Ø 240 mm: it would be left out of the CSV; trace that head curve or give this one the Ø and speed of its head curve.",
+    ]); // source: construction (one key twice; an efficiency curve of a key with no head curve)
   });
 });

@@ -1,22 +1,30 @@
-// What the tracer will not send to the import until the user fixes it, curve by curve. Pure.
+// What the tracer will not send to the import until the user fixes it, curve by curve, and what the importer will warn
+// of. Pure.
 // The CSV keeps one curve per (quantity, speed, impeller Ø) — tracedSets takes the first head curve of a
 // key and one curve of each other quantity — so a second curve of one key would vanish without a word;
-// the importer refuses a blank impeller Ø where it would split a curve (the set next to it in the CSV has
-// the same speed and a Ø: the importer's own rule, run on the CSV's key cells by refusedBlankImpellers;
-// a set without a Ø at a speed of its own is imported without one) and the tracer asks for a speed; a
-// curve of another quantity with no head curve of its key is left out of the CSV; a contour drawn without
+// the importer refuses a blank speed or impeller Ø where it would split a curve (the set next to it in the CSV has the
+// same other key and a value, or its own other key is blank too: the importer's own rule, run on the CSV's key cells by
+// refusedBlankKeys; a set without a Ø at a speed of its own, or without a speed at a Ø of its own, is imported without
+// it — without a speed, with the importer's no-speed warning, which curveWarnings names) and a speed or Ø typed at zero
+// or below; a curve of another quantity with no head curve of its key is left out of the CSV; a contour drawn without
 // an efficiency level (above zero) is left out of the reading (model.ts contourReading), so its crossings
 // would be missing from the efficiency column. Each is named beside its curve in the sidebar, and "Check
 // and import" (and the export) wait until none is left.
-import { impellerGiven, refusedBlankImpellers, type Calibration } from "~/lib/tracer";
+import { impellerGiven, inCsv, refusedBlankKeys, type Calibration, type RefusedBlank } from "~/lib/tracer";
+import { NO_SPEED_WARNING } from "~/lib/import";
 import { QUANTITY_LABEL, calibrations, keyOf, tracedSets, type Curve, type TracerState } from "./model";
 
 export type CurveProblem = { curveId: number; message: string };
 
 const name = (c: Curve) => `Curve ${c.id}`;
-const speedGiven = (rpm: number) => Number.isFinite(rpm) && rpm > 0;
-const keyText = (c: Curve) => `${c.speedRpm} rpm${impellerGiven(c.impellerMm) ? ` with impeller Ø ${c.impellerMm} mm` : " with no impeller Ø"}`;
+/** A speed typed (a blank field is NaN): written in the CSV, where the importer takes it only above zero. */
+const speedTyped = (rpm: number) => Number.isFinite(rpm);
+const impellerText = (mm: number) => (impellerGiven(mm) ? `impeller Ø ${mm} mm` : "no impeller Ø");
+/** A key after a curve's name: "at 2900 rpm with impeller Ø 230 mm", "with no speed and no impeller Ø". */
+const atKey = (c: Curve) => (speedTyped(c.speedRpm) ? `at ${c.speedRpm} rpm with ${impellerText(c.impellerMm)}` : `with no speed and ${impellerText(c.impellerMm)}`);
 const list = (cs: Curve[]) => (cs.length === 2 ? `${name(cs[0])} and ${name(cs[1])}` : `${cs.slice(0, -1).map(name).join(", ")} and ${name(cs[cs.length - 1])}`);
+const order = (r: RefusedBlank) => (r.where === "above" ? "just after" : "just before");
+const warned = `with the importer's warning “${NO_SPEED_WARNING}”`;
 
 /** A contour with points but no efficiency level above zero (blank is NaN, a new contour's 0), or null. */
 function contourProblem(c: Curve): string | null {
@@ -25,21 +33,43 @@ function contourProblem(c: Curve): string | null {
   return `Contour ${c.id} ${why}: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.`;
 }
 
+/** The message for a blank speed the importer refuses; `next`: the curve next to it in the CSV, `nextMm`: that curve's Ø. */
+function speedRefused(c: Curve, r: RefusedBlank, next: string, nextMm: number): string {
+  const rows = `its rows in the CSV come ${order(r)} those of ${next} at ${r.value} rpm`;
+  if (!r.otherBlank && impellerGiven(c.impellerMm))
+    return `${name(c)} has no speed, and ${rows} with the same impeller Ø (${c.impellerMm} mm): the importer reads rows of one model and impeller Ø ` +
+      `that follow each other as one curve, so it refuses the blank speed (it would split that curve); type its speed. A curve without a speed ` +
+      `is imported without one, ${warned}, when the curves next to it in the CSV have another impeller Ø.`;
+  return `${name(c)} has no speed and no impeller Ø, and ${rows}${impellerGiven(nextMm) ? ` with Ø ${nextMm} mm` : ""}: with neither key ` +
+    `nothing tells its rows from that curve's, so the importer refuses the blank speed (it would split that curve); type its speed. A curve ` +
+    `without a speed is imported without one, ${warned}, when it has an impeller Ø and the curves next to it in the CSV have another.`;
+}
+
+/** The message for a blank impeller Ø the importer refuses; `nextRpm`: the speed of the curve next to it. */
+function impellerRefused(c: Curve, r: RefusedBlank, next: string, nextRpm: number): string {
+  const rows = `its rows in the CSV come ${order(r)} those of ${next}`;
+  if (!r.otherBlank)
+    return `${name(c)} has no impeller Ø, and ${rows} at the same speed (${c.speedRpm} rpm) with Ø ${r.value} mm: the importer reads rows of one ` +
+      `model and speed that follow each other as one curve, so it refuses the blank Ø (it would split that curve); type its Ø. A curve without ` +
+      `a Ø is imported without one when the curves next to it in the CSV are at another speed.`;
+  return `${name(c)} has no impeller Ø and no speed, and ${rows} with Ø ${r.value} mm${speedTyped(nextRpm) ? ` at ${nextRpm} rpm` : " and no speed"}: ` +
+    `with neither key nothing tells its rows from that curve's, so the importer refuses the blank Ø (it would split that curve); type its Ø. ` +
+    `A curve without a Ø is imported without one when it has a speed and the curves next to it in the CSV are at another speed.`;
+}
+
 /**
- * The blank-Ø message of each key whose set the importer would refuse (refusedBlankImpellers on the sets in the CSV's
- * order), naming the head curve of the set next to it that has the Ø.
+ * The message of each key whose set the importer would refuse for a blank speed or Ø (refusedBlankKeys on the sets in the
+ * CSV's order; the speed first), naming the head curve of the set next to it that has the value.
  */
 function refusedBlanks(s: TracerState, cals: Map<number, Calibration | string>, heads: Curve[]): Map<string, (c: Curve) => string> {
   const sets = tracedSets(s, cals);
   const out = new Map<string, (c: Curve) => string>();
-  for (const [i, why] of refusedBlankImpellers(sets)) {
-    const by = heads.find((h) => keyOf(h) === keyOf(sets[why.by]));
+  for (const [i, why] of refusedBlankKeys(sets)) {
+    const r = why.speed ?? why.impeller!;
+    const by = heads.find((h) => keyOf(h) === keyOf(sets[r.by]));
     const next = by ? name(by) : "the curve";
-    out.set(keyOf(sets[i]), (c) =>
-      `${name(c)} has no impeller Ø, and its rows in the CSV come ${why.where === "above" ? "just after" : "just before"} those of ${next} ` +
-      `at the same speed (${c.speedRpm} rpm) with Ø ${why.impellerMm} mm: the importer reads rows of one model and speed that follow each ` +
-      `other as one curve, so it refuses the blank Ø (it would split that curve); type its Ø. A curve without a Ø is imported ` +
-      `without one when the curves next to it in the CSV are at another speed.`);
+    const { speedRpm, impellerMm } = sets[r.by];
+    out.set(keyOf(sets[i]), (c) => (why.speed ? speedRefused(c, r, next, impellerMm) : impellerRefused(c, r, next, speedRpm)));
   }
   return out;
 }
@@ -59,17 +89,42 @@ export function curveProblems(s: TracerState, cals: Map<number, Calibration | st
     const q = quantityOf.get(c.panelId)!;
     const label = QUANTITY_LABEL[q].toLowerCase();
     let message: string | null = null;
-    if (!speedGiven(c.speedRpm)) message = `${name(c)} has no speed: type it in rpm (above zero).`;
+    if (speedTyped(c.speedRpm) && !(c.speedRpm > 0)) message = `${name(c)} has speed ${c.speedRpm} rpm: it must be above zero.`;
     else if (Number.isFinite(c.impellerMm) && c.impellerMm < 0) message = `${name(c)} has impeller Ø ${c.impellerMm} mm: it must be above zero.`;
-    else if (!impellerGiven(c.impellerMm) && refused.has(keyOf(c))) message = refused.get(keyOf(c))!(c);
+    else if (refused.has(keyOf(c))) message = refused.get(keyOf(c))!(c);
     else {
       const same = curves.filter((d) => quantityOf.get(d.panelId) === q && keyOf(d) === keyOf(c));
       if (same.length > 1)
-        message = `${list(same)} are both ${label} curves at ${keyText(c)}: the CSV keeps one curve per speed and impeller, so give each its own Ø (or speed) or remove one.`;
+        message = `${list(same)} are both ${label} curves ${atKey(c)}: the CSV keeps one curve per speed and impeller, so give each its own Ø (or speed) or remove one.`;
       else if (q !== "head" && !headKeys.has(keyOf(c)))
-        message = `${name(c)} (${label}) has no head curve at ${keyText(c)}: it would be left out of the CSV; trace that head curve or give this one the Ø and speed of its head curve.`;
+        message = `${name(c)} (${label}) has no head curve ${atKey(c)}: it would be left out of the CSV; trace that head curve or give this one the Ø and speed of its head curve.`;
     }
     if (message) out.push({ curveId: c.id, message });
+  }
+  return out;
+}
+
+/**
+ * The importer's no-speed warning, on the head curve of each set in the CSV it takes without a speed (a blank speed it
+ * does not refuse; a curve with a problem is left to that), with what a curve without a speed cannot give.
+ */
+export function curveWarnings(s: TracerState, cals: Map<number, Calibration | string> = calibrations(s), problems: CurveProblem[] = curveProblems(s, cals)): CurveProblem[] {
+  const blocked = new Set(problems.map((p) => p.curveId));
+  const inTheCsv = new Set(tracedSets(s, cals).filter(inCsv).map(keyOf));
+  const head = new Set(s.panels.filter((p) => p.quantity === "head").map((p) => p.id));
+  const seen = new Set<string>();
+  const out: CurveProblem[] = [];
+  for (const c of s.curves) {
+    if (c.kind !== "curve" || !head.has(c.panelId) || seen.has(keyOf(c))) continue;
+    seen.add(keyOf(c)); // the first head curve of a key is its set's (tracedSets)
+    if (speedTyped(c.speedRpm) || !inTheCsv.has(keyOf(c)) || blocked.has(c.id)) continue;
+    out.push({
+      curveId: c.id,
+      message: `${name(c)} (${impellerText(c.impellerMm)}) has no speed: no curve next to it in the CSV has its impeller Ø and a speed, so the importer ` +
+        `takes it as a curve of its own without one, ${warned}. Without a speed, a speed change for this pump is set and judged as a percentage ` +
+        `of the curve's speed, never in rpm against a rated speed, and on a viscous liquid the ANSI/HI 9.6.7 correction, which needs the speed, ` +
+        `is not made. Type its speed if the chart gives one.`,
+    });
   }
   return out;
 }

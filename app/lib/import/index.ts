@@ -108,7 +108,7 @@ export {
   MappingSchema, MappedColumnSchema, BlockSchema, suggestMapping, toLongRows, checkMapping, blockLabel,
   type Mapping, type MappedColumn, type Block, type LongRow, type Cell,
 } from "./mapping";
-export { validateLongRows, curveKey, WATER_20C_DENSITY, CONSISTENCY_TOLERANCE, type Policy, CurveSetSchema, CurvePointSchema, type CurveSet, type CurvePoint, type ValidationResult, type ValidationStats } from "./validate";
+export { validateLongRows, curveKey, NO_SPEED_WARNING, WATER_20C_DENSITY, CONSISTENCY_TOLERANCE, type Policy, CurveSetSchema, CurvePointSchema, type CurveSet, type CurvePoint, type ValidationResult, type ValidationStats } from "./validate";
 export {
   FIELDS, NUMERIC_FIELDS, TEXT_FIELDS, UNITS_BY_FIELD, SI_FACTOR, DEFAULT_UNIT, DIAMETER_UNITS, toSI, guessHeader, unitAllowed,
   headerUnitRefusal, refusalMessage, headerNamesInputPower, headerPowerKind,
@@ -121,6 +121,6 @@ export { undefused, textCell } from "./text-cells";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";
-export { splittingBlanks, type SplittingBlank } from "./blank-keys";
+export { splittingBlanks, type SplittingBlank, type KeyColumn } from "./blank-keys";
 export type { Problem, ProblemCode, Severity } from "./types";
 export { applyCellEdits, csvField, EditRefused, MAX_EDITS, type CellEdit } from "./edit";

@@ -41,6 +41,9 @@ import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/qua
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
 export { CurvePointSchema, CurveSetSchema, type CurvePoint, type CurveSet } from "./curve-schema";
 
+/** The no-speed warning's words (its fix follows them); the tracer names it beside a curve traced without a speed. */
+export const NO_SPEED_WARNING = "no speed given for this curve";
+
 export interface ValidationStats {
   /** Point rows read (one per row in the long layout, one per row and block in the wide layout). */
   pointRows: number;
@@ -354,7 +357,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     if (b.set.points.length < 3)
       add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
     if (b.set.speed === null)
-      add(b.firstLine, null, "no-speed", "no speed given for this curve; map a speed column or set a default speed", key, "warning");
+      add(b.firstLine, null, "no-speed", `${NO_SPEED_WARNING}; map a speed column or set a default speed`, key, "warning");
     curveSets.push(b.set);
   }
 

@@ -119,6 +119,14 @@ describe("words about the peak", () => {
     );
   });
 
+  it("names a curve imported without a speed as such (it read 'NaN rpm'), on the page and in the source line", () => {
+    // A blank speed the importer takes (curve-checks.ts lets it through beside another Ø) is NaN on the page.
+    const blank = { ...p, speedRpm: NaN };
+    expect(peakWarning(blank, "m3/h")).toMatch(/^Curve 2 \(160 mm, no speed\): the peak is not traced\./); // source: construction
+    expect(peakWarning({ ...blank, impellerMm: NaN }, "m3/h")).toMatch(/^Curve 2 \(no speed\): the peak is not traced\./); // source: construction
+    expect(peakNote([blank], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, no speed above 74 % at 30.0–50.0 m³/h"); // source: construction
+  });
+
   it("in the source line: short, after the file and page, cut to the column's 300 characters", () => {
     const note = peakNote([p, { ...p, impellerMm: 150, taken: true }], "m3/h");
     expect(note).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h; 150 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h, BEP taken at its middle 40.0 m³/h at 74 %");

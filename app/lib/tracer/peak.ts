@@ -49,7 +49,8 @@ export const flowUnitText = (unit: string) => unit.replace("m3", "m³");
 
 /** A value the user typed (level, Ø, speed) as typed: at most two decimals, no trailing zeros. */
 const typed = (x: number) => String(+x.toFixed(2));
-const keyText = (p: UnreadPeak) => `${impellerGiven(p.impellerMm) ? `${typed(p.impellerMm)} mm, ` : ""}${typed(p.speedRpm)} rpm`;
+/** The curve's key: "160 mm, 2900 rpm"; a speed left blank (NaN, imported without one) is "no speed". */
+const keyText = (p: UnreadPeak) => `${impellerGiven(p.impellerMm) ? `${typed(p.impellerMm)} mm, ` : ""}${Number.isFinite(p.speedRpm) ? `${typed(p.speedRpm)} rpm` : "no speed"}`;
 const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` : `above ${typed(p.level)} % and below ${typed(p.next)} %`);
 
 /** The tracer page's warning for one curve. */

@@ -14,7 +14,9 @@
  * own (the middle of the innermost contour, when the user took it as the BEP). The impeller column is
  * left out when no set gives an impeller Ø (> 0): the importer reads such curves without one; a blank
  * Ø beside others is written blank: "not given" for its set, unless the set next to it has the same speed and a Ø, which
- * the importer refuses (blank-impellers.ts says which; the page asks for the Ø first).
+ * the importer refuses. A blank speed is written blank too: "not given" for its set (with the importer's no-speed warning),
+ * unless the set next to it has the same Ø (or its own Ø is blank too) and a speed. blank-keys.ts says which the importer
+ * refuses; the page asks for those first.
  */
 import { toCsv } from "~/lib/shared/csv";
 import { SI_FACTOR, type Unit } from "~/lib/import";
