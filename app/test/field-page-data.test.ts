@@ -6,6 +6,11 @@ import { closeDb } from "@db/client.server";
 import { call, makeMember } from "./harness";
 import { frozenFixture, storeSelection } from "./fieldcheck-fixture";
 import * as fieldForm from "~/routes/field.selections.$id";
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { SelectionSummary, type SummarySelection } from "~/components/field/SelectionSummary";
+import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
+import { SI_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -29,4 +34,33 @@ test("GET /field/selections/:id: the frozen selection comes without its energy, 
   const frozen = (r.body as { selection: { frozen: Record<string, unknown> } }).selection.frozen;
   expect(Object.keys(frozen)).toEqual(expect.arrayContaining(["system", "pump", "adjustment", "result"]));
   expect(frozen).not.toHaveProperty("energy");
+});
+
+// The setting on the field page is the report's (setting-step.ts: whole rpm, whole mm; one decimal more off the step), so the
+// contractor sets what the report says. A selection frozen before settings were rounded up holds a solved 1644.3 rpm: the field
+// page showed "1644 rpm" (rounded to the nearest, where the pump falls short) while the report shows "1644.3 rpm"; a trimmed
+// impeller was not shown at all. Check values: the affinity laws (speed = ratio × the curve's 2900 rpm, common practice) and
+// the fixture's made-up 200 mm impeller.
+test("GET /field/selections/:id: the design speed and a trimmed impeller in the report's words, old selections included", async () => {
+  const m = await makeMember("engineer");
+  const shown = async (frozen: ReturnType<typeof frozenFixture>, name: string) => {
+    const { selectionId } = await storeSelection(m.workspaceId, m.userId, frozen, name);
+    const r = await call(fieldForm.loader as never, { path: `/field/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
+    expect(r.status).toBe(200);
+    const selection = (r.body as { selection: SummarySelection }).selection;
+    return renderToString(createElement(SelectionSummary, { selection, unitSystem: SI_UNITS })).replace(/<!-- -->/g, "");
+  };
+  const old = frozenFixture({ adjustment: { ...DEFAULT_ADJUSTMENT, method: "speed" } });
+  const before = { ...old, result: { ...old.result, ratio: 1644.3 / 2900, solvedRatio: undefined } };
+  const html = await shown(before as never, "Old speed");
+  expect(html).toContain("1644.3 rpm");
+  expect(html).not.toMatch(/>1644 rpm</);
+  const now = await shown(old, "New speed");
+  expect(now).toContain(`${Math.round(old.result.ratio * 2900)} rpm`); // on the whole-rpm step (the rounding rule), no decimal
+  expect(Number.isInteger(Number((old.result.ratio * 2900).toPrecision(12)))).toBe(true);
+  const t = frozenFixture();
+  const trimmed = { ...t, adjustment: { ...t.adjustment, method: "trim" as const }, pump: { ...t.pump, impellerDiameter: 0.2 }, result: { ...t.result, ratio: 0.91 } };
+  const trim = await shown(trimmed, "Trimmed");
+  expect(trim).toContain("trimmed to Ø182 mm");
+  expect(trim).toContain("2900 rpm"); // the speed as published
 });

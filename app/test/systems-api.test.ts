@@ -102,6 +102,7 @@ describe("GET /api/v1/systems/:id/search", () => {
     const page = await searchForSystem(v, systemId);
     expect(body.results.map((x) => x.curveSetId)).toEqual(page.results.map((x) => x.curveSetId));
     expect(body.results.length).toBeGreaterThan(0);
+    let unknownSeen = 0;
     for (const [i, x] of body.results.entries()) {
       const p = page.results[i];
       expect(x).toMatchObject({ rank: p.rank, curveSetId: p.curveSetId, label: p.label, library: LIB });
@@ -118,7 +119,12 @@ describe("GET /api/v1/systems/:id/search", () => {
       expect(pv).toBeDefined();
       expect(x.verdict).toEqual(renderDeep(JSON.parse(JSON.stringify(pv)), SI_UNITS));
       expect(["meets", "short", "oversized", "outside-catalogue", "no-operating-point"]).toContain((x.verdict as { status: string }).status);
+      // NPSH over the band as the page's row says it, the points not judged included (product rule: an "unknown" names them).
+      expect(x.npsh?.unjudged).toEqual(p.npsh?.unjudged ?? []);
+      if (x.npsh?.status === "unknown") unknownSeen++;
     }
+    // Control: the booster's first page holds a pump whose NPSH over the band is unknown for a point not judged.
+    expect(unknownSeen).toBeGreaterThan(0);
   });
 
   test("method filter; an unknown method → 400; a system without duty → no results and a message", async () => {
@@ -160,6 +166,11 @@ describe("searchResultView (pure)", () => {
   test("passes the band's NPSH judgement through (its NPSHa null when a stored one lacks it), null without", () => {
     expect(searchResultView(base).npsh).toBeNull();
     const npsh = { status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", rule: "r", judgedAt: [] };
-    expect(searchResultView({ ...base, npsh }).npsh).toEqual({ status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", available: null, rule: "r" });
+    expect(searchResultView({ ...base, npsh }).npsh).toEqual({ status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", available: null, rule: "r", unjudged: [] });
+  });
+  test("an NPSH left unknown names its points not judged, with why (npshOverBand's rule; the search row says the same)", () => {
+    const unjudged = [{ at: "least lift, new pipe", why: "no operating point" }];
+    const npsh = { status: "unknown", marginRatio: 1.5, at: "design point", available: 6, rule: "r", judgedAt: [], unjudged };
+    expect(searchResultView({ ...base, npsh }).npsh).toEqual({ status: "unknown", marginRatio: 1.5, at: "design point", available: 6, rule: "r", unjudged });
   });
 });

@@ -12,6 +12,10 @@ export type SummarySelection = {
   own: boolean;
   pump: string;
   designSpeed: number | null;
+  /** The speed as set, in the report's words ("1645 rpm"; "1644.3 rpm" off the whole-rpm step); null when the curve names none. */
+  designSpeedText: string | null;
+  /** "trimmed to Ø182 mm" when the impeller is trimmed, else null. */
+  impeller: string | null;
   duty: { flow: number; head: number } | null | undefined;
   arrangement: string;
   dutyPumps: number;
@@ -37,7 +41,13 @@ export function SelectionSummary({ selection, unitSystem }: { selection: Summary
         <dt className="text-slate-600">Design duty</dt>
         <dd>{selection.duty ? `${fmtFlow(unitSystem, selection.duty.flow)} at ${fmtHead(unitSystem, selection.duty.head)}` : "not set"}</dd>
         <dt className="text-slate-600">Design speed</dt>
-        <dd>{selection.designSpeed ? `${Math.round(selection.designSpeed)} rpm` : "not stated"}</dd>
+        <dd data-testid="design-speed">{selection.designSpeedText ?? "not stated"}</dd>
+        {selection.impeller ? (
+          <>
+            <dt className="text-slate-600">Impeller</dt>
+            <dd data-testid="design-impeller">{selection.impeller}</dd>
+          </>
+        ) : null}
         {selection.arrangement !== "single" ? (
           <>
             <dt className="text-slate-600">Arrangement</dt>

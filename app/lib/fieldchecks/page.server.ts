@@ -8,6 +8,7 @@ import type { UnitChoice } from "../shared/units";
 import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
 import { checkHistory, getFieldCheck } from "./records.server";
 import { unreadableCheckText } from "./stored-check";
+import { settingText, settingToken } from "../projects/setting-step";
 
 export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: UnitChoice, amendParam: string) {
   const history = await checkHistory(viewer, selectionId);
@@ -32,6 +33,10 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
     amends = { id: amended.check.id, version: amended.check.version, unreadable: !amended.readable, latest: amended.latest || !last ? null : { id: last.id, version: last.version } };
   }
   const speedRatio = frozen.adjustment.method === "speed" ? (frozen.result?.ratio ?? 1) : 1;
+  // The setting by the rule the report shows it with (setting-step.ts): whole rpm and whole mm, one decimal more off the
+  // step (a selection frozen before settings were rounded up), never rounded to a speed the pump falls short at.
+  const published = { speed: frozen.pump.speed, impellerDiameter: frozen.pump.impellerDiameter };
+  const trimRatio = frozen.adjustment.method === "trim" ? (frozen.result?.ratio ?? 1) : 1;
   return {
     selection: {
       id: selection.id,
@@ -42,6 +47,9 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
       own: selection.own,
       pump: frozen.pump.label,
       designSpeed: frozen.pump.speed != null ? frozen.pump.speed * speedRatio : null,
+      designSpeedText: frozen.pump.speed != null ? settingText("speed", speedRatio, published) : null,
+      /** The trimmed impeller as set (a diameter token, in the reader's units once rendered); null when not trimmed. */
+      impeller: frozen.adjustment.method === "trim" ? `trimmed to ${settingToken("trim", trimRatio, published)}${published.impellerDiameter ? "" : " of the curve's impeller"}` : null,
       duty: frozen.system.input.duty,
       arrangement: frozen.adjustment.arrangement,
       dutyPumps: frozen.adjustment.dutyPumps,

@@ -20,7 +20,7 @@ export type SearchResultIn = Pick<
   /** The search's verdict of the pump as offered, or null when it gives none. */
   verdict: unknown;
   /** NPSH over the design point and the band's corners (the lowest deciding), or null without a verdict. */
-  npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string } | null;
+  npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string; unjudged?: { at: string; why: string }[] } | null;
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
   /** The operating point the figures are at (m³/s, m), null without one. */
@@ -44,8 +44,11 @@ export type SearchResultView = {
   adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null };
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
-  /** NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule }, or null. */
-  npsh: { status: string; marginRatio: number | null; at: string | null; available: number | null; rule: string } | null;
+  /**
+   * NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule,
+   * unjudged (the points the rule names that could not be judged, each { at, why }: any of them leaves the status "unknown") }, or null.
+   */
+  npsh: { status: string; marginRatio: number | null; at: string | null; available: number | null; rule: string; unjudged: { at: string; why: string }[] } | null;
   /** operatingPoint, efficiency, shaftPower, bepRatio, inPor: at the operating point judged; headAtDuty, npshRequired, npshMargin, score: the search's at the typed duty. */
   figures: {
     operatingPoint: { flow: number; head: number } | null;
@@ -78,7 +81,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
     adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote },
     verdict: r.verdict ?? null,
-    npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule } : null,
+    npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule, unjudged: r.npsh.unjudged ?? [] } : null,
     figures: {
       operatingPoint: r.operatingPoint,
       headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,

@@ -80,11 +80,16 @@ const Result = obj({
   allIntersections: v.optional(v.array(obj({ flow: num, head: num }))),
   figures: v.nullable(Figures),
   por: v.nullish(obj({ minFlow: num, maxFlow: num })),
-  band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, reason: v.nullable(str) }))),
+  /** NPSHa and NPSHr at each edge: absent in selections frozen before they were kept. */
+  band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, npshAvailable: nullishNum, npshRequired: nullishNum, reason: v.nullable(str) }))),
   npsh: v.optional(obj({
     status: str, marginRatio: numOrNull, at: v.nullable(str), rule: str, available: nullishNum,
+    /** The wanted NPSHa / NPSHr: absent in selections frozen before it was kept. */
+    requiredMargin: v.optional(num),
     /** Absent in selections frozen before the band's four corners were judged. */
     judgedAt: v.optional(v.array(obj({ at: str, flow: numOrNull, available: numOrNull, required: numOrNull, marginRatio: numOrNull }))),
+    /** The points the rule could not judge, with why (the report, the CSV's npsh_not_judged_at): absent in selections frozen before it was kept. */
+    unjudged: v.optional(v.array(obj({ at: str, why: str }))),
   })),
   /** Absent in selections frozen before verdicts; null without a duty. */
   verdict: v.optional(v.nullable(obj({ status: v.picklist(VERDICT_STATUSES), rule: str, reasons: strings, edge: v.nullish(str) }))),
@@ -138,11 +143,11 @@ const LABELS: Record<string, string> = {
   reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input",
-  judgedAt: "points NPSH is judged at", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
+  judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
 const ITEMS: Record<string, string> = {
-  ...INPUT_ITEMS, judgedAt: "NPSH point", points: "curve point", curve: "curve as used, point", band: "band edge", steps: "step", reasons: "reason", yearly: "year",
+  ...INPUT_ITEMS, judgedAt: "NPSH point", unjudged: "NPSH point not judged", points: "curve point", curve: "curve as used, point", band: "band edge", steps: "step", reasons: "reason", yearly: "year",
   flows: "flows, point", design: "design curve, point", low: "low-level curve, point", high: "high-level curve, point", npsha: "NPSH available, point",
 };
 const QUANTITIES: Record<string, Quantity> = { ...INPUT_QUANTITIES, motorRating: "power", impellerDiameter: "diameter" };
