@@ -16,6 +16,7 @@ import { PageHead } from "~/components/PageHead";
 import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
 import { positiveFilter } from "~/lib/shared/decimal";
 import { Pager } from "~/components/Pager";
+import { publishedOf, settingToken } from "~/lib/projects/setting-step";
 import { qt } from "~/engine/quantityText";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
@@ -84,7 +85,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       curve: curveLabel(r.setSpeed, r.setDiameter),
       method: r.method,
       // The setting the verdict judged, with the rule it was found by (the How cell's title).
-      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${r.method === "speed" && r.speed != null ? ` (${Math.round(r.speed)} rpm)` : r.method === "trim" && r.diameter != null ? ` (Ø${qt("diameter", r.diameter)})` : ""}`,
+      // The rpm or Ø by the one rule the candidates table uses (setting-step.ts; a diameter as a token, in the reader's units).
+      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }))})` : ""}`,
       howRule: r.ratioNote,
       efficiency: r.efficiency,
       bepRatio: r.bepRatio,

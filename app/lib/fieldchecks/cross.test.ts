@@ -98,3 +98,14 @@ describe("field chart: operating points on the system curve", () => {
     }
   });
 });
+
+describe("the speed hint names the selection's speed as the report does", () => {
+  // A selection frozen before settings were rounded up holds a solved 1644.3 rpm (ratio × the curve's 2900 rpm, affinity
+  // laws, common practice); a measured 2900 rpm is 76 % off it (> 3 %: the hint). It said "1644 rpm", a speed the pump is short at.
+  test("an off-step design speed keeps its decimal; a whole one reads whole", () => {
+    const f = frozenFixture({ points: linearPoints(30, 100, 0.03), adjustment: { ...frozenFixture().adjustment, method: "speed" } });
+    const hint = (ratio: number) => evaluateCheck({ ...f, result: { ...f.result, ratio } }, readings(fieldsForHead(28, RHO20, { flow: "0.012" })), "2B").hints.find((h) => h.startsWith("The measured speed differs"));
+    expect(hint(1644.3 / 2900)).toContain("(2900 rpm against 1644.3 rpm)");
+    expect(hint(1645 / 2900)).toContain("(2900 rpm against 1645 rpm)");
+  });
+});

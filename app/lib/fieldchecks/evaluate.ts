@@ -25,7 +25,7 @@ import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from
 import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import type { CheckResult, Pt } from "./result";
-import { fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
+import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
 export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
@@ -98,7 +98,7 @@ function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; sp
   if (offDuty && dutyFlow! > 0 && (dutyHead ?? 0) < 0)
     hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
   if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
-    hints.push(`The measured speed differs from the selection's speed (${Math.round(r.speed.measured)} rpm against ${Math.round(r.speed.design)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
+    hints.push(`The measured speed differs from the selection's speed (${fmtNumExact(r.speed.measured, [r.speed.design], 0)} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
   if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < 0)
     hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
   if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > 0)
