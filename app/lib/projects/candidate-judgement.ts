@@ -38,7 +38,7 @@ import {
 } from "~/engine";
 import { fmtPct, qt, qtPair } from "~/engine/quantityText";
 import type { LiquidSolver } from "./candidate-solve";
-import { roundUpSetting, settingText } from "./setting-step";
+import { roundUpSetting, settingText, settingToken } from "./setting-step";
 
 /** The two edges of the band: where the pump delivers most and least. */
 export function bandEdges(mode: "open" | "closed-loop"): { name: string; which: SystemCase }[] {
@@ -239,8 +239,11 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   const onLiquid = (method: "speed" | "trim", water: RatioSolution) => {
     const solved = ctx.liquid ? ctx.liquid.solve(method, per, water) : water.ratio;
     if (solved == null) return null;
-    const r = roundUpSetting(method, solved, { speed: ctx.base.speed, impellerDiameter: ctx.base.impellerDiameter }).ratio;
-    return { r, curve: ctx.liquid ? ctx.liquid.at(method, r) : (method === "speed" ? scaleBySpeed(ctx.base, r) : scaleByTrim(ctx.base, r)).curve };
+    const set = roundUpSetting(method, solved, { speed: ctx.base.speed, impellerDiameter: ctx.base.impellerDiameter });
+    const r = set.ratio;
+    // How the setting was reached, in the same words as the candidate's own note: rounded up, on a step already, or the published curve.
+    const how = set.capped ? "the published curve's: rounding up would pass it" : r === solved ? "as solved" : `the next whole ${method === "speed" ? "rpm" : "mm"} up`;
+    return { r, how, curve: ctx.liquid ? ctx.liquid.at(method, r) : (method === "speed" ? scaleBySpeed(ctx.base, r) : scaleByTrim(ctx.base, r)).curve };
   };
   const sp = speedForDuty(ctx.base, per, { min: 0.3, max: 1 });
   const spl = sp.status === "ok" && sp.ratio ? onLiquid("speed", sp) : null;
@@ -248,14 +251,14 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
     const rated = catalogue?.ratedSpeed ?? null;
     const speed = ctx.base.speed != null ? ctx.base.speed * spl.r : null;
     const outside = catalogueReasons({ speedRange: catalogue?.speedRange, ...(speed != null && rated != null ? { speed, ratedSpeed: rated } : { speedRatio: spl.r }) });
-    out.push({ means: "speed", power: times(at(spl.curve)), how: `${fmtPct(spl.r)} speed${speed ? ` (${settingText("speed", spl.r, ctx.base)}, the next whole rpm up)` : ""}`, outside });
+    out.push({ means: "speed", power: times(at(spl.curve)), how: `${fmtPct(spl.r)} speed${speed ? ` (${settingText("speed", spl.r, ctx.base)}, ${spl.how})` : ""}`, outside });
   }
   const tr = trimForDuty(ctx.base, per);
   const trl = tr.status === "ok" && tr.ratio ? onLiquid("trim", tr) : null;
   if (trl) {
     const d = ctx.base.impellerDiameter != null ? ctx.base.impellerDiameter * trl.r : null;
     const outside = catalogueReasons({ diameter: d, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: trl.r });
-    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (Ø${qt("diameter", d)}, the next whole mm up)` : ""}, approximate`, outside });
+    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (${settingToken("trim", trl.r, ctx.base)}, ${trl.how})` : ""}, approximate`, outside });
   }
   return out;
 }
