@@ -6,7 +6,7 @@
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION } from "~/engine";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { pumpsBasis } from "~/lib/projects/power-basis";
-import { fmtNumExact, fmtPressure, type UnitChoice } from "~/lib/shared/units";
+import { fmtNumExact, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { fmtUtc } from "~/lib/shared/format";
 
 type Viscosity = { status: string; b: number | null; factors: { flow: number; head: number; efficiency: number } | null };
@@ -70,7 +70,7 @@ export function methodLines(f: FrozenSelection, units: UnitChoice): string[] {
     arrangementLine(f),
     "Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5), judged at the design point and at each corner of the band (least and most lift × new and aged pipe), the lowest deciding; NPSHa at or below zero is a cavitation risk whatever the pump.",
     "Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.",
-    "Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve to its end; non-overloading only where that power is known from the curve's first flow to its last and the pump does not run past its curve's end at least lift (in parallel, one pump running alone too), else not judged; a duty-cycle step above rating × service factor is warned of at its step; efficiency by IE class after IEC 60034-30-1 (from memory; its table from 0.12 kW, a rating between two entries takes the lower entry's, one below 0.12 kW the 0.12 kW value, both warned); drive 97 % when a speed is set (common practice); energy from the electrical input.",
+    `Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve; non-overloading only where that power is known at every flow the pump can run at (run-out, one parallel pump alone), else not judged; a duty-cycle step above it is warned of; efficiency by IE class after IEC 60034-30-1 (from memory; from ${fmtQ(units, "power", 120)}, the lower entry between sizes, warned); drive 97 % when a speed is set (common practice); energy from the electrical input.`,
     curveDataLine(f),
   ].filter((l): l is string => l !== null);
 }
