@@ -58,7 +58,9 @@ export function GradeTable({ highlight }: { highlight?: string }) {
         Where a power was recorded with the motor's efficiency, the grade is met only if, as well, the shaft power (input × motor efficiency) is at
         most the allowance above the curve's at the measured flow, and the pump's efficiency (ρ·g·Q·H / shaft power) at most the allowance below the
         curve's — the efficiency allowance read as a fraction of the curve's efficiency, not percentage points (our reading from memory: verify
-        against the standard). Without a power, or without the motor's efficiency, power and efficiency are not judged and the check says so.
+        against the standard). Without a power, or without the motor's efficiency, power and efficiency are not judged and the check says so. A
+        power or efficiency limit missed as read is “at the tolerance limit” when the power reading's accuracy was entered and the limits are met at
+        the lowest power within it (reading × (1 − accuracy)); without an accuracy, a limit missed as read is outside tolerance.
       </p>
     </details>
   );

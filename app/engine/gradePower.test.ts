@@ -7,7 +7,7 @@
  * efficiency is ρ·g₀·Q·H_measured / P_measured, so at H = 1.02·H_c and P = (1 + x)·P_c it is η_c · 1.02/(1 + x).
  */
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, fieldCheck, G0, gradePower, TOLERANCE_GRADES, type Fluid } from "./index.ts";
+import { createPumpCurve, fieldCheck, G0, gradePower, gradePowerWithinAccuracy, TOLERANCE_GRADES, type Fluid } from "./index.ts";
 import { fmtPctSignedExact } from "./quantityText.ts";
 
 const RHO = 998;
@@ -103,3 +103,24 @@ describe("fmtPctSignedExact", () => {
   });
 });
 
+
+describe("gradePowerWithinAccuracy: the limits within a power reading's ± accuracy (of the reading)", () => {
+  // 1B, head 2 % high: the power bound (1 + 4 %)·P_c is the tighter; met within ±2 % while (1 + d)(1 − 0.02) ≤ 1.04 (hand algebra).
+  const at = (d: number, a: number) => gradePowerWithinAccuracy(curve, Q, 1.02 * HC, RHO, (1 + d) * PC, grade("1B"), a);
+  it("met as read: the reading itself; missed as read: a power in [P(1 − a), P) meeting both limits; past the bound: null", () => {
+    expect(at(0.03, 0.02)!.shaft).toBe(1.03 * PC);
+    const w = at(0.05, 0.02)!;
+    expect(w.check.pass).toBe(true);
+    expect(w.shaft).toBeGreaterThanOrEqual(1.05 * PC * 0.98 - 1e-9);
+    expect(w.shaft).toBeLessThan(1.04 * PC + 1e-9);
+    const t = 1.04 / 0.98 - 1;
+    expect(at(t - 1e-9, 0.02)).not.toBeNull();
+    expect(at(t + 1e-9, 0.02)).toBeNull();
+    expect(at(0.05, 0)).toBeNull(); // ±0: as read
+  });
+  it("refuses an accuracy outside [0, 1)", () => {
+    expect(() => at(0.05, -0.01)).toThrow(/accuracy/);
+    expect(() => at(0.05, 1)).toThrow(/accuracy/);
+    expect(() => at(0.05, Number.NaN)).toThrow(/accuracy/);
+  });
+});

@@ -15,7 +15,7 @@
  * the guarantee point, one field reading against a published curve is judged at the measured flow.
  * Units SI: flow m³/s, head m, density kg/m³, power W; allowances and efficiencies as fractions.
  */
-import { requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors.ts";
+import { EngineInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors.ts";
 import type { ToleranceGrade } from "./fieldCheck.ts";
 import { efficiencyAt, ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
@@ -74,4 +74,48 @@ export function gradePower(curve: PumpCurve | PumpCurveInput, flow: number, head
   const efficiency = efficiencyBelow === null || !(h > 0) ? null : limit((rho * G0 * q * h) / p, efficiencyAt(c, q), efficiencyBelow, "below");
   const judged = [power, efficiency].filter((x): x is GradeLimitCheck => x !== null && x.pass !== null);
   return { power, efficiency, pass: judged.length ? judged.every((x) => x.pass) : null };
+}
+
+/** A shaft power within a power reading's accuracy that meets a grade's power and efficiency limits, and those limits judged there. */
+export interface GradePowerWitness {
+  /** The shaft power, W. */
+  shaft: number;
+  check: GradePowerCheck;
+}
+
+/**
+ * Whether a shaft power read to ± `accuracy` (a fraction of the reading) could meet a grade's power and efficiency limits
+ * at the measured flow and head. The true power lies in [P(1 − a), P(1 + a)]. Both limits bound it from above: power
+ * P ≤ (1 + tP)·P_curve, and efficiency ρ·g₀·Q·H / P ≥ (1 − tη)·η_curve (efficiency moves inversely with power), so some
+ * power of the band meets them exactly when its low end P(1 − a) does — judged there by {@link gradePower}. Only the
+ * power reading's accuracy is allowed for here; flow and head are taken as read.
+ * @returns null when the limits are missed even at P(1 − a) (or none is judged); else a power that meets them: the reading
+ *   itself when it does, otherwise the middle of [P(1 − a), the highest power meeting them] (P(1 − a) if rounding misses there)
+ * @param curve pump curve at the speed judged (prepared or raw; SI)
+ * @param flow measured flow, m³/s
+ * @param head measured head, m
+ * @param density liquid density, kg/m³
+ * @param shaftPower measured shaft power, W (as read)
+ * @param grade tolerance grade (fractions)
+ * @param accuracy the power reading's accuracy, ± fraction of reading, in [0, 1)
+ */
+export function gradePowerWithinAccuracy(curve: PumpCurve | PumpCurveInput, flow: number, head: number, density: number, shaftPower: number, grade: ToleranceGrade, accuracy: number): GradePowerWitness | null {
+  const c = ensurePumpCurve(curve);
+  const a = requireInRange("accuracy", accuracy, 0, 1);
+  if (!(a < 1)) throw new EngineInputError("accuracy", `must be below 1 (got ${a})`);
+  const p = requirePositive("shaftPower", shaftPower);
+  const asRead = gradePower(c, flow, head, density, p, grade);
+  if (asRead.pass === null) return null;
+  if (asRead.pass) return { shaft: p, check: asRead };
+  const low = p * (1 - a);
+  const atLow = gradePower(c, flow, head, density, low, grade);
+  if (atLow.pass !== true) return null;
+  // The highest power meeting both limits: each bound read back from the check at the reading (η·P = ρ·g₀·Q·H is fixed).
+  const pw = asRead.power;
+  const ef = asRead.efficiency;
+  const byPower = pw && pw.curve !== null && pw.pass !== null ? (1 + pw.allowed) * pw.curve : Infinity;
+  const byEfficiency = ef && ef.curve !== null && ef.pass !== null && (1 - ef.allowed) * ef.curve > 0 ? (ef.measured * p) / ((1 - ef.allowed) * ef.curve) : Infinity;
+  const mid = (low + Math.min(p, byPower, byEfficiency)) / 2;
+  const atMid = gradePower(c, flow, head, density, mid, grade);
+  return atMid.pass === true ? { shaft: mid, check: atMid } : { shaft: low, check: atLow };
 }

@@ -197,6 +197,7 @@ export default function FieldCheckRecord() {
                 ? fmtPower(sys, pin)
                 : "not measured"}
             {rd.power.mode !== "none" && rd.power.motorEfficiency ? ` · motor efficiency ${fmtPct(rd.power.motorEfficiency, 0)}` : ""}
+            {rd.power.mode !== "none" ? (rd.power.readingAccuracy != null ? ` · reading accuracy ±${fmtNum(rd.power.readingAccuracy * 100, 1)} %` : " · no reading accuracy given") : ""}
           </dd>
           <dt className="text-slate-600">Fluid</dt>
           <dd>

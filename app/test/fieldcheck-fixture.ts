@@ -51,7 +51,7 @@ export function fieldsForHead(head: number, density: number, extra: Record<strin
     pressureUnit: "kPa", sRef: "gauge", dRef: "gauge", sPressure: "0", dPressure: String(pd), sAccuracy: "", dAccuracy: "",
     elevationUnit: "m", sElevation: "0", dElevation: "0", diameterUnit: "mm", sDiameter: "100", dDiameter: "100",
     flowUnit: "m3/s", flow: "", flowAccuracy: "", speedMode: "rpm", rpm: "2900", hz: "", baseHz: "", baseRpm: "",
-    powerMode: "none", powerUnit: "kW", power: "", volts: "", amps: "", powerFactor: "", phases: "3", motorEfficiency: "",
+    powerMode: "none", powerUnit: "kW", power: "", volts: "", amps: "", powerFactor: "", phases: "3", motorEfficiency: "", powerAccuracy: "",
     temperatureUnit: "C", temperature: "20", notes: "", gradeId: "2B",
     ...extra,
   };

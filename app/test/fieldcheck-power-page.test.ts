@@ -1,5 +1,6 @@
 // A recorded field check's page and the selection's list state the grade's power and efficiency limits with their
-// numbers, or that they were not judged and why — also for a check stored before they were judged (old result shape).
+// numbers, or that they were not judged and why — also for a check stored before they were judged (old result shape) —,
+// and the power reading's accuracy: a limit missed as read but met within it is marginal, with the power that meets it.
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: ISO 9906:2012 grade 1B from memory (power
 // +4 %, efficiency −3 %, TOLERANCE_GRADES); the fixture's curve is invented (H = 40 − 1000·Q, 70 % at Q = 0.015 m³/s,
 // app/test/fieldcheck-fixture.ts); curve shaft power there ρ·g₀·Q·H/η (hand formula), water at 20 °C through the engine.
@@ -29,7 +30,7 @@ const PC = (RHO20 * G0 * 0.015 * 25) / 0.7; // the curve's shaft power at 0.015 
 let m: TestMember;
 let v: Viewer;
 let selectionId = 0;
-const ids = { over: 0, none: 0, old: 0 };
+const ids = { over: 0, none: 0, old: 0, within: 0 };
 
 async function record(extra: Record<string, string>) {
   const p = parseCheckFields(fieldsForHead(25.5, RHO20, { flow: "0.015", gradeId: "1B", ...extra }), { kind: "water" }); // head +2 % of the curve's 25 m
@@ -43,6 +44,7 @@ beforeAll(async () => {
   selectionId = (await storeSelection(m.workspaceId, m.userId, undefined, "Power grade")).selectionId;
   ids.over = await record({ powerMode: "input", power: String((1.12 * PC) / 0.9 / 1000), motorEfficiency: "90" }); // shaft power +12 %
   ids.none = await record({});
+  ids.within = await record({ powerMode: "input", power: String((1.05 * PC) / 0.9 / 1000), motorEfficiency: "90", powerAccuracy: "2" }); // +5 %, read ±2 %
   // As stored before power and efficiency were judged: the grade without its allowances, no powerGrade.
   ids.old = await record({ powerMode: "input", power: String((1.12 * PC) / 0.9 / 1000), motorEfficiency: "90" });
   const [row] = await db().select().from(fieldChecks).where(eq(fieldChecks.id, ids.old));
@@ -68,6 +70,18 @@ describe("the check's page states the grade's power and efficiency limits", () =
     expect(html).toMatch(/Power: shaft 5\.87 kW \(input 6\.5\d kW × motor efficiency 90 %\) vs curve 5\.24 kW: \+12\.0 % &gt; \+4 % allowed — not met\./); // 1.12 × 5.243 = 5.872 kW
     expect(html).toMatch(/Efficiency: pump 63\.\d % \(ρ·g·Q·H \/ shaft power\) vs curve 70\.0 %: −8\.\d % of it &lt; −3 % allowed — not met\./);
     expect(html).toContain("1B: flow −5/+5 %, head −3/+3 %, power ≤ +4 %, efficiency ≥ −3 % of the curve's");
+    expect(html).toContain("No power reading accuracy was given, so the power and efficiency limits are judged as read: a limit missed by any margin makes the check a fail.");
+    expect(html).toContain("· no reading accuracy given");
+    expect(html).not.toContain("⟦");
+  });
+
+  test("power +5 % read ±2 %: missed as read, met at a lower power within the accuracy — at the tolerance limit, with that power", async () => {
+    const html = await pageHtml(ids.within);
+    expect(html).toContain('data-verdict="marginal"');
+    expect(html).toContain("· reading accuracy ±2.0 %");
+    // 1.05 × 5.243 = 5.505 kW as read; within ±2 %: 5.395 to 5.615 kW (hand calculation), shown to 3 figures; the power meeting the limits is
+    // between 5.395 kW (the lowest) and 5.453 kW (+4 %).
+    expect(html).toMatch(/Power reading accuracy ±2 % of the reading \(shaft 5\.40 kW to 5\.62 kW\): the limits are missed as read, but within that accuracy a shaft power of 5\.4\d kW \(−[\d.]+ % of the reading\) meets them/);
     expect(html).not.toContain("⟦");
   });
 
@@ -88,7 +102,8 @@ describe("the check's page states the grade's power and efficiency limits", () =
     const r = await call(selectionPage.loader as never, { path: `/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
     const rows = (r.body as { fieldChecks: SelectionCheckRow[] }).fieldChecks;
     const power = Object.fromEntries(rows.map((x) => [x.id, x.readable ? x.power : null]));
-    expect(power[ids.over]).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.9 % (−3 % allowed, not met)."); // 1.02/1.12 − 1
+    expect(power[ids.over]).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.9 % (−3 % allowed, not met); judged as read, no power reading accuracy was given."); // 1.02/1.12 − 1
+    expect(power[ids.within]).toMatch(/shaft power \+5\.0 % \(\+4 % allowed, not met\), pump efficiency −2\.9 % \(−3 % allowed, met\); met within the power reading's ±2 % at shaft 5\.4\d kW \(power \+[\d.]+ % ≤ \+4 % allowed, efficiency −[\d.]+ % of the curve's ≥ −3 % allowed\), so at the tolerance limit\.$/); // 1.02/1.05 − 1
     expect(power[ids.none]).toMatch(/^Power and efficiency were not judged against grade 1B: no power was recorded/);
     expect(power[ids.old]).toMatch(/^Power and efficiency were not judged against grade 1B: this check was recorded before/);
   });
@@ -105,5 +120,7 @@ describe("the check's page states the grade's power and efficiency limits", () =
     expect(cell(ids.none, "power_limits")).toBe("not judged");
     expect(cell(ids.none, "shaft_power_w")).toBe("");
     expect(cell(ids.old, "power_limits")).toBe("not judged");
+    expect([cell(ids.over, "power_accuracy"), cell(ids.over, "power_limits_within_accuracy")]).toEqual(["", ""]); // none given
+    expect([cell(ids.within, "power_limits"), cell(ids.within, "power_accuracy"), cell(ids.within, "power_limits_within_accuracy")]).toEqual(["not met", "0.02", "met"]);
   });
 });

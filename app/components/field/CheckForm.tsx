@@ -15,6 +15,7 @@ import {
   parseCheckFields,
   photoLimitsText,
   photoProblem,
+  POWER_ACCURACY_MAX_PCT,
   POWER_UNITS,
   PRESSURE_UNITS,
   TEMPERATURE_UNITS,
@@ -36,7 +37,7 @@ const LABELS: Record<string, string> = {
   sPressure: "Suction reading", sAccuracy: "Suction accuracy", sElevation: "Suction gauge elevation", sDiameter: "Suction pipe inner diameter",
   dPressure: "Discharge reading", dAccuracy: "Discharge accuracy", dElevation: "Discharge gauge elevation", dDiameter: "Discharge pipe inner diameter",
   flow: "Flow meter reading", flowAccuracy: "Meter accuracy", rpm: "Pump speed", hz: "Drive frequency", baseHz: "Motor base frequency", baseRpm: "Motor base speed",
-  power: "Input power", volts: "Volts", amps: "Amps", powerFactor: "Power factor", motorEfficiency: "Motor efficiency",
+  power: "Input power", volts: "Volts", amps: "Amps", powerFactor: "Power factor", motorEfficiency: "Motor efficiency", powerAccuracy: "Power reading accuracy",
   temperature: "Fluid temperature", gradeId: "Tolerance grade", notes: "Notes", photos: "Photos",
 };
 
@@ -231,6 +232,15 @@ export function CheckForm(props: Props) {
           <option value="1">single-phase</option>
         </ChoiceSelect>
         <NumberField name="motorEfficiency" label="Motor efficiency %" unit="%" value={value("motorEfficiency")} errors={errors} optional hint="nameplate; gives pump efficiency, and without it power and efficiency are not judged against the grade" />
+        <NumberField
+          name="powerAccuracy"
+          label="Power reading accuracy ±"
+          unit="%"
+          value={value("powerAccuracy")}
+          errors={errors}
+          optional
+          hint={`of the reading, 0 to ${POWER_ACCURACY_MAX_PCT} % (the meter's or drive's data sheet); a power or efficiency limit missed as read but met within it is marginal, not a fail — without it a limit is judged as read`}
+        />
       </fieldset>
 
       <fieldset className="panel space-y-3">

@@ -3,6 +3,7 @@
 import { toCsv } from "../shared/csv";
 import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
+import { powerGradeState } from "./power-grade";
 import type { CheckResult } from "./result";
 import type { CheckTimes } from "./taken-at";
 
@@ -22,8 +23,10 @@ const VERDICT_RULE =
   "# verdict: pass when either arm of the grade's tolerance cross is met at the delivered point (ISO 9906:2012, from memory) — " +
   "head_dev_from_curve from −head_allowed_below to +head_allowed_above (the curve's head at the measured flow), or " +
   "flow_dev_from_curve from −flow_allowed_below to +flow_allowed_above (the curve's flow at the measured head); all fractions. " +
-  "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty). " +
-  "fail: missed, or a power or efficiency limit missed as read (power_limits not met). unknown: no flow meter, so flow and head are not judged.";
+  "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty), or a power or efficiency limit " +
+  "missed as read (power_limits not met) but met within power_accuracy (power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
+  "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
+  "unknown: no flow meter, so flow and head are not judged.";
 
 /**
  * One row per check (oldest taken first, as `checksOf` orders them, reversed) after three comment lines naming the selection, the cautions and the verdict rule. A check whose stored
@@ -50,7 +53,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c",
       "power_limits", "shaft_power_w", "power_dev_from_curve", "power_allowed_above", "pump_efficiency", "efficiency_dev_from_curve", "efficiency_allowed_below",
-      "notes",
+      "power_accuracy", "power_limits_within_accuracy", "notes",
     ],
   ];
   for (const c of [...h.checks].reverse()) {
@@ -62,7 +65,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
         r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
-        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), c.notes,
+        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), ...accuracyColumns(c.readings, r), c.notes,
     ]);
   }
   return toCsv(lines, { precision: 8 });
@@ -77,4 +80,15 @@ function powerColumns(r: CheckResult): unknown[] {
   const c = r.powerGrade?.check ?? null;
   if (!c || c.pass === null) return ["not judged", null, null, null, null, null, null];
   return [c.pass ? "met" : "not met", c.power?.measured, c.power?.deviation, c.power?.allowed, c.efficiency?.measured, c.efficiency?.deviation, c.efficiency?.allowed];
+}
+
+/**
+ * The power reading's accuracy as entered (± fraction of the reading; blank when none was given, or no power was recorded),
+ * and whether the grade's power and efficiency limits are met within it: "met" (as read, or at a lower power within it) or
+ * "not met"; blank when no accuracy was given or the limits were not judged.
+ */
+function accuracyColumns(readings: Readings, r: CheckResult): unknown[] {
+  const a = readings.power.mode === "none" ? null : (readings.power.readingAccuracy ?? null);
+  const state = r.powerGrade?.accuracy != null ? powerGradeState(r.powerGrade) : null;
+  return [a, state === null ? null : state === "missed" ? "not met" : "met"];
 }

@@ -8,6 +8,7 @@ import {
   efficiencyAt,
   fieldCheck,
   G0,
+  gradePowerWithinAccuracy,
   gradeWithinUncertainty,
   sampleCurve,
   scaleBySpeed,
@@ -16,6 +17,7 @@ import {
   TOLERANCE_GRADES,
   withinGrade,
   type FieldCheckResult,
+  type GradePowerWitness,
   type GradeWitness,
   type PumpCurve,
   type ToleranceGrade,
@@ -71,15 +73,18 @@ function sample(c: PumpCurve, rho: number) {
  * accuracy, flow ± meter accuracy) is (solved over the whole box: `gradeWithinUncertainty`); fail
  * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade.
  * Then the grade's power and efficiency limits, where the engine judged them (`e.grades`, from a measured shaft
- * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say (no power meter
- * accuracy is recorded, so they have no "at the limit").
+ * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say — unless the power
+ * reading's accuracy was entered and some power within it meets them (`powerWithin`, the engine's
+ * `gradePowerWithinAccuracy`): then the check is at most marginal (a pass on flow and head becomes marginal).
+ * @param powerWithin where the power limits are missed as read: a shaft power within the reading's accuracy that meets them, or null (none, or no accuracy entered)
  */
-export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number): { verdict: Verdict; within: GradeWitness | null } {
+export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number, powerWithin: GradePowerWitness | null = null): { verdict: Verdict; within: GradeWitness | null } {
   if (e.flowSource !== "measured" || e.flow === null) return { verdict: "unknown", within: null };
-  if (e.grades.find((g) => g.id === grade.id)?.power?.pass === false) return { verdict: "fail", within: null };
+  const powerMissed = e.grades.find((g) => g.id === grade.id)?.power?.pass === false;
+  if (powerMissed && !powerWithin) return { verdict: "fail", within: null };
   const q = e.flow;
   const h = e.tdh;
-  if (h > 0 && withinGrade(curve, q, h, grade)) return { verdict: "pass", within: null };
+  if (h > 0 && withinGrade(curve, q, h, grade)) return { verdict: powerMissed ? "marginal" : "pass", within: null };
   if (headUncertainty > 0 || flowAccuracy > 0) {
     const box = { flow: [q * (1 - flowAccuracy), q * (1 + flowAccuracy)], head: [h - headUncertainty, h + headUncertainty] } as const;
     const within = gradeWithinUncertainty(curve, box, grade);
@@ -166,7 +171,12 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   });
   warnings.push(...engine.warnings.map((w) => w.message));
   const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
-  const judged = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty);
+  // The grade's power and efficiency limits, where missed as read, within the power reading's accuracy (when entered).
+  const asRead = engine.grades.find((g) => g.id === grade.id)?.power ?? null;
+  const powerAccuracy = readings.power.mode === "none" ? null : (readings.power.readingAccuracy ?? null);
+  const powerWithin = asRead?.pass === false && powerAccuracy !== null && shaft !== null && engine.flow !== null
+    ? gradePowerWithinAccuracy(curve, engine.flow, engine.tdh, rho, shaft, grade, powerAccuracy) : null;
+  const judged = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty, powerWithin);
   const { within } = judged;
   let verdict = judged.verdict;
   // The curve is translated to the measured speed by the affinity laws, which a test may use only near the
@@ -220,7 +230,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     verdictText: VERDICT_TEXT[verdict],
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
-      : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)` : engine.message,
+      : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
+      : powerWithin && engine.grades.find((g) => g.id === grade.id)?.cross?.pass
+        ? `${engine.message} as read; within the power reading's accuracy (±${fmtPctLimit(powerAccuracy!)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)`
+        : engine.message,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
@@ -229,7 +242,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     delivered: { flow: q, head: engine.tdh },
     deviation,
     power,
-    powerGrade: powerGradeOf(grade, verdict !== "unknown", readings.power, input, engine.grades.find((g) => g.id === grade.id)?.power ?? null),
+    powerGrade: powerGradeOf(grade, verdict !== "unknown", readings.power, input, asRead, powerWithin),
     hints: [],
     warnings: [...new Set(warnings)],
     chart: {

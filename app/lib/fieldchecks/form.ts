@@ -51,11 +51,23 @@ export type SpeedSI =
   /** VFD frequency with the motor's base frequency and base (nameplate) speed. */
   | { mode: "vfd"; hz: number; baseHz: number; baseRpm: number };
 
+/**
+ * The power reading's accuracy, ± fraction of the reading (a clamp meter or the drive's display, as its data sheet states it);
+ * null when none was entered. Missing from readings recorded before it could be entered (read as none).
+ */
+type PowerAccuracy = { readingAccuracy?: number | null };
+
 export type PowerSI =
   | { mode: "none" }
   /** Motor input power, W, read from a meter or the drive. */
-  | { mode: "input"; watts: number; motorEfficiency: number | null }
-  | { mode: "electrical"; volts: number; amps: number; powerFactor: number; phases: 1 | 3; motorEfficiency: number | null };
+  | ({ mode: "input"; watts: number; motorEfficiency: number | null } & PowerAccuracy)
+  | ({ mode: "electrical"; volts: number; amps: number; powerFactor: number; phases: 1 | 3; motorEfficiency: number | null } & PowerAccuracy);
+
+/**
+ * The largest power reading accuracy the form takes, ± % of the reading (product rule): a reading worse than ±20 % cannot
+ * judge a power limit of +4 to +16 % (ISO 9906 grades, from memory); clamp meters and drive displays state about ±1–5 %.
+ */
+export const POWER_ACCURACY_MAX_PCT = 20;
 
 /** Everything read on site, SI. */
 export type Readings = {
@@ -123,6 +135,7 @@ export function blankFields(u: UnitChoice, known: { suction?: number | null; dis
     powerFactor: "",
     phases: "3",
     motorEfficiency: "",
+    powerAccuracy: "",
     temperatureUnit,
     temperature: String(Number(fromSI("temperature", temperatureUnit, temperatureC).toFixed(1))),
     notes: "",
@@ -242,15 +255,16 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   const powerMode = pick("powerMode", ["none", "input", "electrical"] as const, "none");
   const motorEffPct = powerMode === "none" ? null : num("motorEfficiency", "the motor efficiency", null, "", { optional: true, min: 30, max: 100 });
   const motorEfficiency = motorEffPct === null ? null : motorEffPct / 100;
+  const readingAccuracy = powerMode === "none" ? null : powerAccuracyOf(f.powerAccuracy ?? "", errors);
   if (powerMode === "input") {
     const watts = num("power", "the motor input power", "power", wUnit, { min: 0, minOpen: true, max: 5e6 });
-    if (watts !== null) power = { mode: "input", watts, motorEfficiency };
+    if (watts !== null) power = { mode: "input", watts, motorEfficiency, readingAccuracy };
   } else if (powerMode === "electrical") {
     const volts = num("volts", "the voltage", null, "", { min: 50, max: 15_000 });
     const amps = num("amps", "the current", null, "", { min: 0, minOpen: true, max: 5000 });
     const powerFactor = num("powerFactor", "the power factor", null, "", { min: 0.05, max: 1 });
     const phases = pick("phases", ["1", "3"] as const, "3");
-    if (volts !== null && amps !== null && powerFactor !== null) power = { mode: "electrical", volts, amps, powerFactor, phases: phases === "1" ? 1 : 3, motorEfficiency };
+    if (volts !== null && amps !== null && powerFactor !== null) power = { mode: "electrical", volts, amps, powerFactor, phases: phases === "1" ? 1 : 3, motorEfficiency, readingAccuracy };
   }
 
   let temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit);
@@ -268,6 +282,23 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     notes,
     fields: f,
   };
+}
+
+/**
+ * The power reading's accuracy as typed (± % of the reading) → a fraction, or null when blank; anything but a number from 0
+ * to `POWER_ACCURACY_MAX_PCT` is an error under `powerAccuracy` naming the rule and what was typed.
+ */
+function powerAccuracyOf(typed: string, errors: Record<string, string>): number | null {
+  const range = `from 0 to ${POWER_ACCURACY_MAX_PCT} % (± % of the reading, as the meter's data sheet states it)`;
+  const pct = decimalField(typed, "powerAccuracy", "the power reading accuracy", errors);
+  if (pct === null) {
+    // "must be a number." alone: the range and the way out too (an ambiguous comma or an overflow says its own fix).
+    if (errors.powerAccuracy?.endsWith(" must be a number.")) errors.powerAccuracy = `${errors.powerAccuracy.slice(0, -1)} ${range}; leave it blank when the accuracy is not known.`;
+    return null;
+  }
+  if (pct >= 0 && pct <= POWER_ACCURACY_MAX_PCT) return pct / 100;
+  errors.powerAccuracy = `The power reading accuracy must be ${range}: “${typed}” is ${pct < 0 ? "negative" : `past ${POWER_ACCURACY_MAX_PCT} %`}.`;
+  return null;
 }
 
 function capital(s: string) {

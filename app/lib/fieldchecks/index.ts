@@ -11,6 +11,7 @@ export {
   FLOW_UNITS,
   inputPowerW,
   parseCheckFields,
+  POWER_ACCURACY_MAX_PCT,
   POWER_UNITS,
   PRESSURE_UNITS,
   speedRpm,
@@ -29,6 +30,6 @@ export {
 export type { CheckResult, Pt } from "./result";
 export { MAX_CHECK_PHOTO_BYTES, MAX_PHOTO_BYTES, MAX_PHOTOS, photoLimitsText, photoProblem, tooLargeText } from "./photo-limits";
 export { crossOf, crossSentences, type CrossArm } from "./cross";
-export { powerGradeOf, powerGradeSentences, powerGradeSummary, type PowerGrade } from "./power-grade";
+export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
 export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";

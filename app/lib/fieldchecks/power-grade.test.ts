@@ -38,7 +38,7 @@ describe("a grade is met only when flow/head, power and efficiency all meet it",
     expect(said[0]).toMatch(/^Grade 1B also limits the shaft power to at most 4 % above the curve's at the measured flow, and the pump's efficiency to at least the curve's less 3 % of it \(a fraction of the curve's efficiency, not percentage points\) \(ISO 9906:2012 from memory/);
     expect(said[1]).toMatch(/^Power: shaft ⟦power\|[\d.]+\|[\d.]+⟧ \(input ⟦power\|[\d.]+⟧ × motor efficiency 90 %\) vs curve ⟦power\|[\d.]+\|limit:[\d.]+⟧: \+12\.0 % > \+4 % allowed — not met\.$/);
     expect(said[2]).toBe("Efficiency: pump 64.1 % (ρ·g·Q·H / shaft power) vs curve 70.0 %: −8.5 % of it < −3 % allowed — not met."); // 0.7 × 1.025/1.12 = 64.06 %
-    expect(powerGradeSummary(r)).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.5 % (−3 % allowed, not met).");
+    expect(powerGradeSummary(r)).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.5 % (−3 % allowed, not met); judged as read, no power reading accuracy was given.");
   });
 
   test("the power threshold flips the verdict: +3.9 % met, +4.1 % not (head 2 % high keeps the efficiency within −3 %)", () => {

@@ -4,7 +4,7 @@
 // (a meter, the drive, or V·I·PF); the curve gives the pump's SHAFT power. They are compared only through the motor
 // efficiency the contractor entered (shaft = input × η_motor); without it power and efficiency are not judged, and
 // the check says so. Pure: evaluate.ts stores `PowerGrade` with the result, the page and the e-mail read the sentences.
-import type { GradeLimitCheck, GradePowerCheck } from "~/engine";
+import type { GradeLimitCheck, GradePowerCheck, GradePowerWitness } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, qtPair, qt } from "~/engine/quantityText";
 import type { PowerSI } from "./form";
 
@@ -16,6 +16,16 @@ export type PowerGrade = {
   basis: { input: number; motorEfficiency: number } | null;
   /** The engine's judgement at the measured point; null when not judged. */
   check: GradePowerCheck | null;
+  /**
+   * When judged: the power reading's accuracy, ± fraction of the reading, or null when none was given (judged as read).
+   * Missing from results recorded before it could be entered, and when not judged.
+   */
+  accuracy?: number | null;
+  /**
+   * When judged with an accuracy and a limit is missed as read: a shaft power within the accuracy that meets the limits
+   * (the engine's `gradePowerWithinAccuracy`), or null when none does (a fail). Missing otherwise.
+   */
+  within?: GradePowerWitness | null;
 };
 
 type GradeWords = { id: string; powerAbove?: number; efficiencyBelow?: number };
@@ -27,8 +37,9 @@ type GradeWords = { id: string; powerAbove?: number; efficiencyBelow?: number };
  * @param power the power as recorded (SI)
  * @param input the motor's input power, W, or null
  * @param check the engine's judgement (fieldCheck's grade entry), or null
+ * @param within where `check` misses a limit and the reading has an accuracy: a power within it meeting them, or null
  */
-export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: PowerSI, input: number | null, check: GradePowerCheck | null): PowerGrade {
+export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: PowerSI, input: number | null, check: GradePowerCheck | null, within: GradePowerWitness | null = null): PowerGrade {
   const not = (why: string): PowerGrade => ({ notJudged: `Power and efficiency were not judged against grade ${grade.id}: ${why}`, basis: null, check: null });
   if (!tolerance) return not("there is no tolerance verdict (the notes on the working say why).");
   if (power.mode === "none" || input === null) return not("no power was recorded, so the verdict is on flow and head only.");
@@ -38,7 +49,16 @@ export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: Power
     );
   if (grade.powerAbove === undefined && grade.efficiencyBelow === undefined) return not("the grade sets no power or efficiency limit.");
   if (!check || check.pass === null) return not("the curve gives neither power nor efficiency at the measured flow, so the verdict is on flow and head only.");
-  return { notJudged: null, basis: { input, motorEfficiency: power.motorEfficiency }, check };
+  const accuracy = power.readingAccuracy ?? null;
+  const judged: PowerGrade = { notJudged: null, basis: { input, motorEfficiency: power.motorEfficiency }, check, accuracy };
+  return accuracy !== null && check.pass === false ? { ...judged, within } : judged;
+}
+
+/** Whether the limits judged are met: as read, within the power reading's accuracy ("marginal"), or not; null when not judged. */
+export function powerGradeState(pg: PowerGrade | null | undefined): "met" | "within" | "missed" | null {
+  if (!pg || pg.notJudged !== null || !pg.check || pg.check.pass === null) return null;
+  if (pg.check.pass) return "met";
+  return pg.within ? "within" : "missed";
 }
 
 /** A deviation with its sign, never reading as the allowance it is judged against (a fraction ≥ 0). */
@@ -60,6 +80,47 @@ function efficiencyLine(e: GradeLimitCheck | null): string | null {
   return `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${signed(e.deviation, e.allowed)} of it ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed — ${e.pass ? "met" : "not met"}.`;
 }
 
+/** "power +3.5 % ≤ +4 % allowed, efficiency −1.2 % ≥ −3 % allowed" for a check of the limits, each judged one. */
+function limitsAt(c: Pick<GradePowerCheck, "power" | "efficiency">): string {
+  const said: string[] = [];
+  const p = c.power;
+  const e = c.efficiency;
+  if (p && p.deviation !== null && p.pass !== null) said.push(`power ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed`);
+  if (e && e.deviation !== null && e.pass !== null) said.push(`efficiency ${signed(e.deviation, e.allowed)} of the curve's ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed`);
+  return said.join(", ");
+}
+
+/**
+ * The limits at the lowest power within the accuracy, P(1 − a): the power's deviation (1 + d)(1 − a) − 1, the efficiency's
+ * (1 + d)/(1 − a) − 1 (efficiency moves inversely with power), each against its allowance as the engine judges it.
+ */
+function atLowest(c: GradePowerCheck, a: number): Pick<GradePowerCheck, "power" | "efficiency"> {
+  const move = (x: GradeLimitCheck | null, factor: number, side: "above" | "below"): GradeLimitCheck | null => {
+    if (!x || x.deviation === null || x.curve === null) return x;
+    const deviation = (1 + x.deviation) * factor - 1;
+    return { ...x, measured: x.measured * factor, deviation, pass: side === "above" ? deviation <= x.allowed + 1e-12 : deviation >= -x.allowed - 1e-12 };
+  };
+  return { power: move(c.power, 1 - a, "above"), efficiency: move(c.efficiency, 1 / (1 - a), "below") };
+}
+
+/**
+ * The sentence on the power reading's accuracy, with its rule and numbers: none given (judged as read), met as read, met
+ * within it (marginal: the power that meets the limits), or missed even at the lowest power within it (fail).
+ */
+function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable<PowerGrade["basis"]>): string {
+  const a = pg.accuracy ?? null;
+  if (a === null)
+    return "No power reading accuracy was given, so the power and efficiency limits are judged as read: a limit missed by any margin makes the check a fail. Enter the meter's accuracy (± % of the reading) to allow for it.";
+  const shaft = basis.input * basis.motorEfficiency;
+  const head = `Power reading accuracy ±${fmtPctLimit(a)} of the reading (shaft ${qt("power", shaft * (1 - a))} to ${qt("power", shaft * (1 + a))})`;
+  if (check.pass) return `${head}: the limits are met as read, which decides (a reading meeting a limit as read is not marked down for its accuracy, as for flow and head).`;
+  const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${fmtPctLimit(a)})`;
+  const w = pg.within;
+  if (w)
+    return `${head}: the limits are missed as read, but within that accuracy a shaft power of ${qt("power", w.shaft)} (${fmtPctSignedExact(w.shaft / shaft - 1, [-a], true)} of the reading) meets them — ${limitsAt(w.check)} — so the verdict is at the tolerance limit (marginal), not a fail (${rule}).`;
+  return `${head}: the limits are missed even at the lowest power within it — ${limitsAt(atLowest(check, a))} — so the check is a fail (${rule}).`;
+}
+
 /**
  * The grade's power and efficiency limits in words, each with its rule and numbers (quantity tokens: render them in the
  * reader's units). A result recorded before these limits were judged (no `powerGrade`) says so.
@@ -77,8 +138,9 @@ export function powerGradeSentences(r: { grade: GradeWords; powerGrade?: PowerGr
       : `the pump's efficiency to at least the curve's less ${fmtPctLimit(g.efficiencyBelow)} of it (a fraction of the curve's efficiency, not percentage points)`,
   ].filter(Boolean);
   return [
-    `Grade ${g.id} also limits ${rule.join(", and ")} (ISO 9906:2012 from memory; our reading, to be verified against the standard). Judged as read; the grade is met only when flow/head, power and efficiency all are.`,
+    `Grade ${g.id} also limits ${rule.join(", and ")} (ISO 9906:2012 from memory; our reading, to be verified against the standard). Judged as read${r.powerGrade.accuracy != null ? ", then within the power reading's accuracy (below)" : ""}; the grade is met only when flow/head, power and efficiency all are.`,
     ...[powerLine(check.power, basis), efficiencyLine(check.efficiency)].filter((x): x is string => x !== null),
+    accuracyLine(r.powerGrade, check, basis),
     "The shaft power is the input power × the motor efficiency entered: an error in that efficiency moves the power and the efficiency judged one for one.",
   ];
 }
@@ -93,5 +155,16 @@ export function powerGradeSummary(r: { grade: GradeWords; powerGrade?: PowerGrad
   const { power, efficiency } = pg.check;
   const part = (name: string, x: GradeLimitCheck | null, sign: "+" | "−") =>
     x && x.deviation !== null && x.pass !== null ? `${name} ${signed(x.deviation, x.allowed)} (${allowance(x.allowed, sign)} allowed, ${x.pass ? "met" : "not met"})` : `${name} not judged (no curve value)`;
-  return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, "+") : null, efficiency ? part("pump efficiency", efficiency, "−") : null].filter(Boolean).join(", ")}.`;
+  return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, "+") : null, efficiency ? part("pump efficiency", efficiency, "−") : null].filter(Boolean).join(", ")}${accuracyClause(pg, pg.check)}.`;
+}
+
+/** The e-mail's clause on the power reading's accuracy: none given (as read), or what the limits are within it, with the numbers. */
+function accuracyClause(pg: PowerGrade, check: GradePowerCheck): string {
+  const a = pg.accuracy ?? null;
+  if (check.pass === null) return "";
+  if (a === null) return "; judged as read, no power reading accuracy was given";
+  const acc = `the power reading's ±${fmtPctLimit(a)}`;
+  if (check.pass) return `; met as read (${acc} not needed)`;
+  if (pg.within) return `; met within ${acc} at shaft ${qt("power", pg.within.shaft)} (${limitsAt(pg.within.check)}), so at the tolerance limit`;
+  return `; missed even at the lowest power within ${acc} (${limitsAt(atLowest(check, a))})`;
 }

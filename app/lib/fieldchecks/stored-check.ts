@@ -26,8 +26,8 @@ const Speed = v.variant("mode", [
 ]);
 const Power = v.variant("mode", [
   obj({ mode: v.literal("none") }),
-  obj({ mode: v.literal("input"), watts: num, motorEfficiency: numOrNull }),
-  obj({ mode: v.literal("electrical"), volts: num, amps: num, powerFactor: num, phases: v.picklist([1, 3]), motorEfficiency: numOrNull }),
+  obj({ mode: v.literal("input"), watts: num, motorEfficiency: numOrNull, readingAccuracy: v.optional(numOrNull) }),
+  obj({ mode: v.literal("electrical"), volts: num, amps: num, powerFactor: num, phases: v.picklist([1, 3]), motorEfficiency: numOrNull, readingAccuracy: v.optional(numOrNull) }),
 ]);
 
 /** field_checks.readings_json: the readings in SI and the form's fields as typed (an amendment starts from them). */
@@ -50,11 +50,17 @@ const Engine = obj({
 
 /** One of a grade's power or efficiency limits as judged (engine gradePower.ts). */
 const Limit = obj({ measured: num, curve: numOrNull, deviation: numOrNull, allowed: fraction, pass: v.nullable(v.boolean()) });
-/** The grade's power and efficiency limits (power-grade.ts): judged, or why not. */
+const PowerCheck = obj({ power: v.nullable(Limit), efficiency: v.nullable(Limit), pass: v.nullable(v.boolean()) });
+/**
+ * The grade's power and efficiency limits (power-grade.ts): judged, or why not. `accuracy` and `within` (the power reading's
+ * accuracy and a power within it meeting the limits) are optional: results recorded before the accuracy could be entered lack them.
+ */
 const PowerGrade = obj({
   notJudged: v.nullable(str),
   basis: v.nullable(obj({ input: num, motorEfficiency: num })),
-  check: v.nullable(obj({ power: v.nullable(Limit), efficiency: v.nullable(Limit), pass: v.nullable(v.boolean()) })),
+  check: v.nullable(PowerCheck),
+  accuracy: v.optional(v.nullable(fraction)),
+  within: v.optional(v.nullable(obj({ shaft: num, check: PowerCheck }))),
 });
 
 /**
@@ -85,7 +91,7 @@ export const CheckResultSchema = obj({
   }),
 });
 
-const percent = (key: string, x: number) => (["flowAccuracy", "motorEfficiency"].includes(key) ? `${Number((x * 100).toPrecision(6))} %` : undefined);
+const percent = (key: string, x: number) => (["flowAccuracy", "motorEfficiency", "readingAccuracy"].includes(key) ? `${Number((x * 100).toPrecision(6))} %` : undefined);
 
 const READINGS_WORDS: DocWords = {
   whole: "the stored readings",
@@ -93,7 +99,7 @@ const READINGS_WORDS: DocWords = {
     readings: "readings", fields: "form fields as typed", suction: "suction gauge", discharge: "discharge gauge", pressure: "pressure", reference: "reference (gauge or absolute)",
     elevation: "elevation", diameter: "pipe inner diameter", accuracy: "accuracy", flow: "flow", flowAccuracy: "flow meter accuracy", speed: "speed",
     mode: "how it was read", rpm: "speed", hz: "drive frequency", baseHz: "motor's base frequency", baseRpm: "motor's base speed", power: "power", watts: "input power",
-    volts: "voltage", amps: "current", powerFactor: "power factor", phases: "phases", motorEfficiency: "motor efficiency", temperatureC: "fluid temperature",
+    volts: "voltage", amps: "current", powerFactor: "power factor", phases: "phases", motorEfficiency: "motor efficiency", readingAccuracy: "power reading accuracy", temperatureC: "fluid temperature",
   },
   items: {},
   quantities: { pressure: "pressure", accuracy: "pressure", elevation: "length", diameter: "diameter", flow: "flow", watts: "power", temperatureC: "temperature" },
@@ -110,7 +116,7 @@ const RESULT_WORDS: DocWords = {
     delivered: "delivered point", head: "head", deviation: "deviations", curveFlow: "flow from the curve", dutyFlow: "flow from the duty", dutyHead: "head from the duty",
     power: "power", input: "input power", hydraulic: "hydraulic power", overall: "overall efficiency", shaft: "shaft power", pump: "pump efficiency", curve: "the curve's value at the measured flow",
     powerAbove: "power allowance", efficiencyBelow: "efficiency allowance", powerGrade: "power and efficiency against the grade", notJudged: "why not judged",
-    basis: "shaft power from", motorEfficiency: "motor efficiency", check: "judgement", efficiency: "efficiency", allowed: "allowance", pass: "met",
+    basis: "shaft power from", motorEfficiency: "motor efficiency", check: "judgement", accuracy: "power reading accuracy", within: "met within the power reading accuracy", efficiency: "efficiency", allowed: "allowance", pass: "met",
     hints: "hints", warnings: "notes on the working", chart: "chart", flowMax: "flow range", band: "flow band", selectedLabel: "label of the curve as selected", measuredLabel: "label of the curve compared",
   },
   items: {
