@@ -5,20 +5,9 @@
 import { describe, expect, it } from "vitest";
 import { dutyCycleEnergy, type DutyCycleInput } from "./index.ts";
 import { inSI } from "./quantityText.ts";
-import { knotCurve } from "./test/curves.ts";
+import { knotCycle } from "./test/curves.ts";
 
-const M3H = 1 / 3600;
-const qd = 10 * M3H;
-const base: DutyCycleInput = {
-  curve: knotCurve(),
-  systemHead: (q: number) => 18 * (q / qd) ** 2, // through the design knot: 600 W there
-  designFlow: qd,
-  mode: "fixed-speed",
-  profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }],
-  density: 1000,
-  motor: { rating: 750, efficiency: 0.8 },
-  driveEfficiency: null,
-};
+const base: DutyCycleInput = knotCycle(); // through the design knot: 600 W at 10 m³/h
 const overloads = (motor: DutyCycleInput["motor"]) => dutyCycleEnergy({ ...base, motor }).warnings.filter((w) => w.code === "motor-overload-step");
 
 describe("a step above the motor's rating × service factor", () => {

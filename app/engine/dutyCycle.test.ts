@@ -1,25 +1,14 @@
 import { describe, expect, it } from "vitest";
 import { defaultCirculatorProfile, dutyCycleEnergy, EngineInputError, type DutyCycleInput } from "./index.ts";
-import { knotCurve } from "./test/curves.ts";
+import { KNOT_DESIGN_FLOW, knotCycle } from "./test/curves.ts";
 
 // A made-up pump (not any vendor's): knots every 5 m³/h, H = 20 − 0.02·Q² (Q in m³/h), shaft power given
 // at the knots (W, at 1000 kg/m³, the curve's power density). Steps fall on knots, so the monotone cubic
 // returns the knot values exactly and the hand calculation needs no interpolation.
 const M3H = 1 / 3600;
-const curve = knotCurve();
-const qd = 10 * M3H;
-// Closed loop through the design point: H = 18 m × (Q / 10 m³/h)² (no static head).
-const systemHead = (q: number) => 18 * (q / qd) ** 2;
-const base: DutyCycleInput = {
-  curve,
-  systemHead,
-  designFlow: qd,
-  mode: "fixed-speed",
-  profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }],
-  density: 1000,
-  motor: { rating: 750, efficiency: 0.8 },
-  driveEfficiency: null,
-};
+const qd = KNOT_DESIGN_FLOW;
+// Closed loop through the design point: H = 18 m × (Q / 10 m³/h)² (no static head); fixed speed, 750 W motor at 80 %.
+const base: DutyCycleInput = knotCycle();
 
 describe("duty-cycle energy against a hand calculation", () => {
   it("fixed speed, throttled: the pump stays on its curve", () => {

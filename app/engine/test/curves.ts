@@ -1,5 +1,5 @@
 // Shared test data: synthetic pump curves made up for the tests (not any vendor's data).
-import { createPumpCurve, type PumpCurve, type PumpPoint } from "../index.ts";
+import { createPumpCurve, type DutyCycleInput, type PumpCurve, type PumpPoint } from "../index.ts";
 
 export const M3H = 1 / 3600;
 
@@ -46,4 +46,24 @@ export function knotCurve(): PumpCurve {
     ],
     powerDensity: 1000,
   });
+}
+
+/** The knot curve's design flow, m³/s (10 m³/h: 18 m and 600 W there). */
+export const KNOT_DESIGN_FLOW = 10 * M3H;
+
+/**
+ * The duty-cycle tests' base (made up): the knot curve on a closed loop through its design knot, H = 18 m × (Q / 10 m³/h)²
+ * (no static head), fixed speed, 1000 h at full and 3000 h at half flow, a 750 W motor at 80 %, no drive, 1000 kg/m³.
+ */
+export function knotCycle(): DutyCycleInput {
+  return {
+    curve: knotCurve(),
+    systemHead: (q: number) => 18 * (q / KNOT_DESIGN_FLOW) ** 2,
+    designFlow: KNOT_DESIGN_FLOW,
+    mode: "fixed-speed",
+    profile: [{ flowFraction: 1, hours: 1000 }, { flowFraction: 0.5, hours: 3000 }],
+    density: 1000,
+    motor: { rating: 750, efficiency: 0.8 },
+    driveEfficiency: null,
+  };
 }
