@@ -56,3 +56,19 @@ export function fieldsForHead(head: number, density: number, extra: Record<strin
     ...extra,
   };
 }
+
+/**
+ * Where the power tests read frozenFixture()'s default curve: its knot Q = 0.015 m³/s, H = 25 m (40 − 1000·Q), 70 % efficient
+ * (0.4 + 0.3·sin(π/2), linearPoints), with a motor efficiency of 90 % entered (invented).
+ */
+export const POWER_KNOT = { flow: 0.015, head: 25, efficiency: 0.7, motorEfficiency: 0.9 } as const;
+
+/**
+ * Form fields for a check at POWER_KNOT's flow and `head` m whose motor input power is `shaft` W / 90 % with that motor
+ * efficiency entered (no power at all when `shaft` is null), water of density `rho` kg/m³.
+ */
+export function powerCheckFields(head: number, shaft: number | null, rho: number, extra: Record<string, string> = {}): Record<string, string> {
+  const m = POWER_KNOT.motorEfficiency;
+  const power: Record<string, string> = shaft === null ? {} : { powerMode: "input", power: String(shaft / m / 1000), motorEfficiency: String(m * 100) };
+  return fieldsForHead(head, rho, { flow: String(POWER_KNOT.flow), ...power, ...extra });
+}

@@ -8,19 +8,17 @@
 // H = 25 m; curve shaft power P_c = ρ·g₀·Q·H/η there, water at 20 °C through the engine (IAPWS-IF97).
 import { describe, expect, test } from "vitest";
 import { fluidAt, G0 } from "~/engine";
-import { fieldsForHead, frozenFixture } from "~/test/fieldcheck-fixture";
+import { fieldsForHead, frozenFixture, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
 import { deliveredSentence, evaluateCheck, historyCsv, parseCheckFields, powerGradeSentences, type CheckResult, type Readings } from "./index";
 import { readStoredCheck } from "./stored-check";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const f = frozenFixture();
-const Q = 0.015;
-const HC = 25;
-const PC = (RHO20 * G0 * Q * HC) / 0.7; // W, ≈ 5243 W
-const MOTOR = 0.9; // motor efficiency entered (invented)
+const { flow: Q, head: HC } = POWER_KNOT;
+const PC = (RHO20 * G0 * Q * HC) / POWER_KNOT.efficiency; // W, ≈ 5243 W
 
 function parsed(head: number, shaft: number, extra: Record<string, string> = {}) {
-  const p = parseCheckFields(fieldsForHead(head, RHO20, { flow: String(Q), powerMode: "input", power: String(shaft / MOTOR / 1000), motorEfficiency: String(MOTOR * 100), ...extra }), { kind: "water" });
+  const p = parseCheckFields(powerCheckFields(head, shaft, RHO20, extra), { kind: "water" });
   if (!p.ok) throw new Error(JSON.stringify(p.errors));
   return p;
 }
@@ -110,7 +108,7 @@ describe("without an accuracy, checks read as before", () => {
   test("blank, or the field missing from the post (an older page or queued check): same verdict, message and judgement", () => {
     for (const [g, h, p, verdict] of cases) {
       const blank = check(g, h * HC, p * PC, "");
-      const fields = fieldsForHead(h * HC, RHO20, { flow: String(Q), powerMode: "input", power: String((p * PC) / MOTOR / 1000), motorEfficiency: "90" });
+      const fields = powerCheckFields(h * HC, p * PC, RHO20);
       delete fields.powerAccuracy;
       const old = parseCheckFields(fields, { kind: "water" });
       if (!old.ok) throw new Error(JSON.stringify(old.errors));

@@ -6,20 +6,17 @@
 // Hand calculation: curve shaft power there P_c = ρ·g₀·Q·H/η; water at 20 °C through the engine (IAPWS-IF97).
 import { describe, expect, test } from "vitest";
 import { fluidAt, G0 } from "~/engine";
-import { fieldsForHead, frozenFixture } from "~/test/fieldcheck-fixture";
+import { fieldsForHead, frozenFixture, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
 import { evaluateCheck, parseCheckFields, powerGradeSentences, powerGradeSummary } from "./index";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const f = frozenFixture();
-const Q = 0.015;
-const HC = 25;
-const PC = (RHO20 * G0 * Q * HC) / 0.7; // W, ≈ 5243 W
-const MOTOR = 0.9; // motor efficiency entered (invented)
+const { flow: Q, head: HC } = POWER_KNOT;
+const PC = (RHO20 * G0 * Q * HC) / POWER_KNOT.efficiency; // W, ≈ 5243 W
 
 /** A check at Q = 0.015 m³/s and `head` with a shaft power of `shaft` W (input power = shaft / 90 %), judged against `grade`. */
 function check(grade: string, head: number, shaft: number | null, extra: Record<string, string> = {}) {
-  const power: Record<string, string> = shaft === null ? {} : { powerMode: "input", power: String(shaft / MOTOR / 1000), motorEfficiency: String(MOTOR * 100) };
-  const p = parseCheckFields(fieldsForHead(head, RHO20, { flow: String(Q), gradeId: grade, ...power, ...extra }), { kind: "water" });
+  const p = parseCheckFields(powerCheckFields(head, shaft, RHO20, { gradeId: grade, ...extra }), { kind: "water" });
   if (!p.ok) throw new Error(JSON.stringify(p.errors));
   return evaluateCheck(f, p.readings, grade);
 }
@@ -80,7 +77,7 @@ describe("a grade is met only when flow/head, power and efficiency all meet it",
   });
 
   test("no flow meter: no tolerance verdict, and power is not judged either", () => {
-    const p = parseCheckFields(fieldsForHead(HC, RHO20, { powerMode: "input", power: String(PC / MOTOR / 1000), motorEfficiency: "90" }), { kind: "water" });
+    const p = parseCheckFields(fieldsForHead(HC, RHO20, { powerMode: "input", power: String(PC / POWER_KNOT.motorEfficiency / 1000), motorEfficiency: "90" }), { kind: "water" });
     if (!p.ok) throw new Error(JSON.stringify(p.errors));
     const r = evaluateCheck(f, p.readings, "1B");
     expect(r.verdict).toBe("unknown");
