@@ -12,7 +12,7 @@
 //                unless set.
 //   MAILBOX_API_URL  the SMTP stand-in's HTTP API, read by the development mailbox page.
 import nodemailer, { type Transporter } from "nodemailer";
-import { and, desc, eq, isNull, lt, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
 import { affectedRows, db, retryOnConflict } from "@db/client.server";
 import { outbox } from "@db/schema";
 import { DEFAULT_MAIL_FROM, settings } from "../shared/env.server";
@@ -224,9 +224,12 @@ let flushing: Promise<FlushOutcome> | null = null;
 /**
  * Retries unsent rows that are due (see RETRY_AFTER_SECONDS), oldest first, up to `limit`.
  * `now` moves the clock for the due test (the database's clock is used otherwise; tests pass a
- * later time to skip the wait). Concurrent calls in one process share a single run.
+ * later time to skip the wait). `only` limits the run to those rows (a caller retrying its own mail,
+ * e.g. a test beside others that queue mail in the same database). Concurrent calls in one process
+ * share a single run, unless they name their rows.
  */
-export function flushOutbox(opts: { limit?: number; now?: Date } = {}): Promise<FlushOutcome> {
+export function flushOutbox(opts: { limit?: number; now?: Date; only?: readonly number[] } = {}): Promise<FlushOutcome> {
+  if (opts.only) return runFlush(opts);
   if (!flushing) {
     flushing = runFlush(opts).finally(() => {
       flushing = null;
@@ -235,7 +238,7 @@ export function flushOutbox(opts: { limit?: number; now?: Date } = {}): Promise<
   return flushing;
 }
 
-async function runFlush({ limit = 50, now }: { limit?: number; now?: Date }): Promise<FlushOutcome> {
+async function runFlush({ limit = 50, now, only }: { limit?: number; now?: Date; only?: readonly number[] }): Promise<FlushOutcome> {
   const url = smtpUrl();
   if (!url) {
     holdNotice();
@@ -257,6 +260,7 @@ async function runFlush({ limit = 50, now }: { limit?: number; now?: Date }): Pr
         isNull(outbox.sentAt),
         lt(outbox.attempts, MAX_ATTEMPTS),
         sql`TIMESTAMPDIFF(SECOND, ${outbox.createdAt}, CURRENT_TIMESTAMP(3)) + ${shift} >= ${retryAfterSql()}`,
+        only ? (only.length ? inArray(outbox.id, [...only]) : sql`FALSE`) : undefined,
       ),
     )
     .orderBy(outbox.id)
