@@ -122,5 +122,7 @@ describe("gradePowerWithinAccuracy: the limits within a power reading's ± accur
     expect(() => at(0.05, -0.01)).toThrow(/accuracy/);
     expect(() => at(0.05, 1)).toThrow(/accuracy/);
     expect(() => at(0.05, Number.NaN)).toThrow(/accuracy/);
+    expect(() => at(0.05, Infinity)).toThrow(/accuracy/);
+    expect(() => at(0.05, -Infinity)).toThrow(/accuracy/);
   });
 });

@@ -89,6 +89,13 @@ export interface GradePowerWitness {
  * P ≤ (1 + tP)·P_curve, and efficiency ρ·g₀·Q·H / P ≥ (1 − tη)·η_curve (efficiency moves inversely with power), so some
  * power of the band meets them exactly when its low end P(1 − a) does — judged there by {@link gradePower}. Only the
  * power reading's accuracy is allowed for here; flow and head are taken as read.
+ * Why not at a corner of the flow/head uncertainty box (gradeUncertainty.ts) — decided 2026-12-03, our policy, not a
+ * standard's (ISO 9906's own uncertainty rules from memory only, not checked): the box is used one way only, for benefit
+ * of the doubt ("marginal" when SOME point of it meets the cross); a reading met as read is never marked down for its
+ * uncertainty, so the worst corner would contradict it. The consistent counterpart, the most favourable (q, h) of the box
+ * for power too, is not a small change: P_curve(q) = ρ·g₀·q·H(q)/η(q) and the efficiency bound are not monotone between
+ * knots, so it could only be sampled (which that module was written to avoid), and an honest witness would have to meet
+ * the cross, power and efficiency at one point. So flow and head stay as read here, and the check says so.
  * @returns null when the limits are missed even at P(1 − a) (or none is judged); else a power that meets them: the reading
  *   itself when it does, otherwise the middle of [P(1 − a), the highest power meeting them] (P(1 − a) if rounding misses there)
  * @param curve pump curve at the speed judged (prepared or raw; SI)

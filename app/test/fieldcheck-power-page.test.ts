@@ -82,6 +82,9 @@ describe("the check's page states the grade's power and efficiency limits", () =
     // 1.05 × 5.243 = 5.505 kW as read; within ±2 %: 5.395 to 5.615 kW (hand calculation), shown to 3 figures; the power meeting the limits is
     // between 5.395 kW (the lowest) and 5.453 kW (+4 %).
     expect(html).toMatch(/Power reading accuracy ±2 % of the reading \(shaft 5\.40 kW to 5\.62 kW\): the limits are missed as read, but within that accuracy a shaft power of 5\.4\d kW \(−[\d.]+ % of the reading\) meets them/);
+    // The limit's own line agrees with the verdict (was "… > +4 % allowed — not met."): 1.05/1.04 = 101.0 % of it, 1.05 × 0.98 − 1 = +2.9 %.
+    expect(html).toMatch(/Power: shaft 5\.51 kW \(input 6\.1\d kW × motor efficiency 90 %\) vs curve 5\.24 kW: \+5\.0 % &gt; \+4 % allowed as read — met within the meter's ±2 % \(read 101\.0 % of the limit; at the lowest power within it, reading × \(1 − 2 %\), \+2\.9 % ≤ \+4 % allowed\)\./);
+    expect(html).not.toContain("not met");
     expect(html).not.toContain("⟦");
   });
 
@@ -103,7 +106,7 @@ describe("the check's page states the grade's power and efficiency limits", () =
     const rows = (r.body as { fieldChecks: SelectionCheckRow[] }).fieldChecks;
     const power = Object.fromEntries(rows.map((x) => [x.id, x.readable ? x.power : null]));
     expect(power[ids.over]).toBe("Against grade 1B's power and efficiency limits: shaft power +12.0 % (+4 % allowed, not met), pump efficiency −8.9 % (−3 % allowed, not met); judged as read, no power reading accuracy was given."); // 1.02/1.12 − 1
-    expect(power[ids.within]).toMatch(/shaft power \+5\.0 % \(\+4 % allowed, not met\), pump efficiency −2\.9 % \(−3 % allowed, met\); met within the power reading's ±2 % at shaft 5\.4\d kW \(power \+[\d.]+ % ≤ \+4 % allowed, efficiency −[\d.]+ % of the curve's ≥ −3 % allowed\), so at the tolerance limit\.$/); // 1.02/1.05 − 1
+    expect(power[ids.within]).toMatch(/shaft power \+5\.0 % as read \(\+4 % allowed, met within the meter's ±2 %: read 101\.0 % of the limit; at the lowest power within it, reading × \(1 − 2 %\), \+2\.9 % ≤ \+4 % allowed\), pump efficiency −2\.9 % \(−3 % allowed, met\); met within the power reading's ±2 % at shaft 5\.4\d kW \(power \+[\d.]+ % ≤ \+4 % allowed, efficiency −[\d.]+ % of the curve's ≥ −3 % allowed\), so at the tolerance limit\.$/); // 1.02/1.05 − 1
     expect(power[ids.none]).toMatch(/^Power and efficiency were not judged against grade 1B: no power was recorded/);
     expect(power[ids.old]).toMatch(/^Power and efficiency were not judged against grade 1B: this check was recorded before/);
   });
@@ -121,6 +124,6 @@ describe("the check's page states the grade's power and efficiency limits", () =
     expect(cell(ids.none, "shaft_power_w")).toBe("");
     expect(cell(ids.old, "power_limits")).toBe("not judged");
     expect([cell(ids.over, "power_accuracy"), cell(ids.over, "power_limits_within_accuracy")]).toEqual(["", ""]); // none given
-    expect([cell(ids.within, "power_limits"), cell(ids.within, "power_accuracy"), cell(ids.within, "power_limits_within_accuracy")]).toEqual(["not met", "0.02", "met"]);
+    expect([cell(ids.within, "power_limits"), cell(ids.within, "power_accuracy"), cell(ids.within, "power_limits_within_accuracy")]).toEqual(["met within accuracy", "0.02", "met"]); // was "not met" beside the marginal verdict
   });
 });

@@ -24,7 +24,8 @@ const VERDICT_RULE =
   "head_dev_from_curve from −head_allowed_below to +head_allowed_above (the curve's head at the measured flow), or " +
   "flow_dev_from_curve from −flow_allowed_below to +flow_allowed_above (the curve's flow at the measured head); all fractions. " +
   "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty), or a power or efficiency limit " +
-  "missed as read (power_limits not met) but met within power_accuracy (power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
+  "missed as read (power_dev_from_curve above power_allowed_above, or efficiency_dev_from_curve below −efficiency_allowed_below) but met within power_accuracy " +
+  "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "unknown: no flow meter, so flow and head are not judged.";
 
@@ -72,14 +73,16 @@ export function historyCsv(h: CheckHistoryForCsv): string {
 }
 
 /**
- * The grade's power and efficiency limits as judged (power-grade.ts): "met", "not met" or "not judged" (a check
- * recorded before they were judged reads "not judged" too), then shaft power (W), its deviation from the curve and the
+ * The grade's power and efficiency limits as judged (power-grade.ts), in agreement with the verdict: "met" (as read),
+ * "met within accuracy" (missed as read but met at the lowest power within the reading's accuracy: the check is marginal),
+ * "not met" or "not judged" (a check recorded before they were judged reads "not judged" too), then shaft power (W), its deviation from the curve and the
  * allowance, the pump's efficiency, its deviation and the allowance (fractions); blank where not judged.
  */
 function powerColumns(r: CheckResult): unknown[] {
   const c = r.powerGrade?.check ?? null;
   if (!c || c.pass === null) return ["not judged", null, null, null, null, null, null];
-  return [c.pass ? "met" : "not met", c.power?.measured, c.power?.deviation, c.power?.allowed, c.efficiency?.measured, c.efficiency?.deviation, c.efficiency?.allowed];
+  const state = powerGradeState(r.powerGrade);
+  return [state === "met" ? "met" : state === "within" ? "met within accuracy" : "not met", c.power?.measured, c.power?.deviation, c.power?.allowed, c.efficiency?.measured, c.efficiency?.deviation, c.efficiency?.allowed];
 }
 
 /**

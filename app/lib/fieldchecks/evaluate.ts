@@ -75,7 +75,8 @@ function sample(c: PumpCurve, rho: number) {
  * Then the grade's power and efficiency limits, where the engine judged them (`e.grades`, from a measured shaft
  * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say — unless the power
  * reading's accuracy was entered and some power within it meets them (`powerWithin`, the engine's
- * `gradePowerWithinAccuracy`): then the check is at most marginal (a pass on flow and head becomes marginal).
+ * `gradePowerWithinAccuracy`): then the check is at most marginal (a pass on flow and head becomes marginal). The power
+ * limits are judged at the flow and head as read, not over their uncertainty box (why: gradePower.ts, at that function).
  * @param powerWithin where the power limits are missed as read: a shaft power within the reading's accuracy that meets them, or null (none, or no accuracy entered)
  */
 export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number, powerWithin: GradePowerWitness | null = null): { verdict: Verdict; within: GradeWitness | null } {

@@ -66,18 +66,51 @@ const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], t
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 
-function powerLine(p: GradeLimitCheck | null, basis: NonNullable<PowerGrade["basis"]>): string | null {
+/**
+ * A limit's state, in agreement with the check's verdict: met as read; "within" — missed as read, but the check is
+ * marginal because the limits are met at the lowest power within the reading's accuracy (`pg.within`), and this limit is
+ * met there (`low`, from {@link lowOf}); or missed.
+ */
+function limitState(x: GradeLimitCheck, pg: PowerGrade, low: GradeLimitCheck | null): "met" | "within" | "missed" {
+  if (x.pass) return "met";
+  return pg.within && low?.pass === true ? "within" : "missed";
+}
+
+/** The limit's value the reading is held to: (1 + tP) × the curve's power, or (1 − tη) × the curve's efficiency. */
+const limitValue = (x: GradeLimitCheck, side: "+" | "−") => (x.curve ?? NaN) * (side === "+" ? 1 + x.allowed : 1 - x.allowed);
+
+/**
+ * A limit missed as read but met within the power reading's accuracy, with the rule and numbers: "met within the meter's
+ * ±2 % (read 101.0 % of the limit; at the lowest power within it, reading × (1 − 2 %), +2.9 % ≤ +4 % allowed)".
+ */
+function withinWords(x: GradeLimitCheck, low: GradeLimitCheck, a: number, side: "+" | "−", nested = false): string {
+  const ofLimit = x.measured / limitValue(x, side);
+  const why = `read ${fmtPctExact(ofLimit, [1])} of the limit; at the lowest power within it, reading × (1 − ${fmtPctLimit(a)}), ${signed(low.deviation!, low.allowed)} ${side === "+" ? "≤" : "≥"} ${allowance(low.allowed, side)} allowed`;
+  return `met within the meter's ±${fmtPctLimit(a)}${nested ? `: ${why}` : ` (${why})`}`;
+}
+
+/**
+ * Each limit of `check` at the lowest power within the accuracy; null without one, or with one that is not a fraction in
+ * [0, 1) (the form and the stored result refuse such; handed in anyway, no limit reads "met within" it).
+ */
+const lowOf = (pg: PowerGrade, check: GradePowerCheck) => (pg.accuracy != null && Number.isFinite(pg.accuracy) && pg.accuracy >= 0 && pg.accuracy < 1 ? atLowest(check, pg.accuracy) : null);
+
+function powerLine(p: GradeLimitCheck | null, basis: NonNullable<PowerGrade["basis"]>, pg: PowerGrade, low: GradeLimitCheck | null): string | null {
   if (!p) return null;
   const from = `input ${qt("power", basis.input)} × motor efficiency ${fmtPctLimit(basis.motorEfficiency)}`;
   if (p.curve === null || p.deviation === null || p.pass === null) return `Power: shaft ${qt("power", p.measured)} (${from}); the curve gives no power at the measured flow — not judged.`;
   const [measured, curve] = qtPair("power", p.measured, p.curve);
-  return `Power: shaft ${measured} (${from}) vs curve ${curve}: ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed — ${p.pass ? "met" : "not met"}.`;
+  const head = `Power: shaft ${measured} (${from}) vs curve ${curve}: ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed`;
+  const state = limitState(p, pg, low);
+  return state === "within" ? `${head} as read — ${withinWords(p, low!, pg.accuracy!, "+")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
 
-function efficiencyLine(e: GradeLimitCheck | null): string | null {
+function efficiencyLine(e: GradeLimitCheck | null, pg: PowerGrade, low: GradeLimitCheck | null): string | null {
   if (!e) return null;
   if (e.curve === null || e.deviation === null || e.pass === null) return `Efficiency: pump ${fmtPctExact(e.measured)} (ρ·g·Q·H / shaft power); the curve gives no efficiency at the measured flow — not judged.`;
-  return `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${signed(e.deviation, e.allowed)} of it ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed — ${e.pass ? "met" : "not met"}.`;
+  const head = `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${signed(e.deviation, e.allowed)} of it ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed`;
+  const state = limitState(e, pg, low);
+  return state === "within" ? `${head} as read — ${withinWords(e, low!, pg.accuracy!, "−")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
 
 /** "power +3.5 % ≤ +4 % allowed, efficiency −1.2 % ≥ −3 % allowed" for a check of the limits, each judged one. */
@@ -114,7 +147,7 @@ function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable
   const shaft = basis.input * basis.motorEfficiency;
   const head = `Power reading accuracy ±${fmtPctLimit(a)} of the reading (shaft ${qt("power", shaft * (1 - a))} to ${qt("power", shaft * (1 + a))})`;
   if (check.pass) return `${head}: the limits are met as read, which decides (a reading meeting a limit as read is not marked down for its accuracy, as for flow and head).`;
-  const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${fmtPctLimit(a)})`;
+  const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${fmtPctLimit(a)}), at the flow and head as read (their uncertainty is allowed for on the tolerance cross only)`;
   const w = pg.within;
   if (w)
     return `${head}: the limits are missed as read, but within that accuracy a shaft power of ${qt("power", w.shaft)} (${fmtPctSignedExact(w.shaft / shaft - 1, [-a], true)} of the reading) meets them — ${limitsAt(w.check)} — so the verdict is at the tolerance limit (marginal), not a fail (${rule}).`;
@@ -131,6 +164,7 @@ export function powerGradeSentences(r: { grade: GradeWords; powerGrade?: PowerGr
   if (!r.powerGrade) return [`Power and efficiency were not judged against grade ${g.id}: this check was recorded before a grade's power and efficiency limits were judged, so its verdict is on flow and head only.`];
   const { notJudged, basis, check } = r.powerGrade;
   if (notJudged !== null || !basis || !check) return [notJudged ?? `Power and efficiency were not judged against grade ${g.id}.`];
+  const low = lowOf(r.powerGrade, check);
   const rule = [
     g.powerAbove !== undefined ? `the shaft power to at most ${fmtPctLimit(g.powerAbove)} above the curve's at the measured flow` : null,
     g.efficiencyBelow === undefined ? null
@@ -139,7 +173,7 @@ export function powerGradeSentences(r: { grade: GradeWords; powerGrade?: PowerGr
   ].filter(Boolean);
   return [
     `Grade ${g.id} also limits ${rule.join(", and ")} (ISO 9906:2012 from memory; our reading, to be verified against the standard). Judged as read${r.powerGrade.accuracy != null ? ", then within the power reading's accuracy (below)" : ""}; the grade is met only when flow/head, power and efficiency all are.`,
-    ...[powerLine(check.power, basis), efficiencyLine(check.efficiency)].filter((x): x is string => x !== null),
+    ...[powerLine(check.power, basis, r.powerGrade, low?.power ?? null), efficiencyLine(check.efficiency, r.powerGrade, low?.efficiency ?? null)].filter((x): x is string => x !== null),
     accuracyLine(r.powerGrade, check, basis),
     "The shaft power is the input power × the motor efficiency entered: an error in that efficiency moves the power and the efficiency judged one for one.",
   ];
@@ -153,9 +187,15 @@ export function powerGradeSummary(r: { grade: GradeWords; powerGrade?: PowerGrad
   const pg = r.powerGrade;
   if (!pg || pg.notJudged !== null || !pg.check) return powerGradeSentences(r)[0];
   const { power, efficiency } = pg.check;
-  const part = (name: string, x: GradeLimitCheck | null, sign: "+" | "−") =>
-    x && x.deviation !== null && x.pass !== null ? `${name} ${signed(x.deviation, x.allowed)} (${allowance(x.allowed, sign)} allowed, ${x.pass ? "met" : "not met"})` : `${name} not judged (no curve value)`;
-  return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, "+") : null, efficiency ? part("pump efficiency", efficiency, "−") : null].filter(Boolean).join(", ")}${accuracyClause(pg, pg.check)}.`;
+  const low = lowOf(pg, pg.check);
+  // Each limit in agreement with the verdict: one missed as read but met within the accuracy (a marginal check) says so.
+  const part = (name: string, x: GradeLimitCheck | null, xLow: GradeLimitCheck | null, sign: "+" | "−") => {
+    if (!x || x.deviation === null || x.pass === null) return `${name} not judged (no curve value)`;
+    const state = limitState(x, pg, xLow);
+    if (state === "within") return `${name} ${signed(x.deviation, x.allowed)} as read (${allowance(x.allowed, sign)} allowed, ${withinWords(x, xLow!, pg.accuracy!, sign, true)})`;
+    return `${name} ${signed(x.deviation, x.allowed)} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? "met" : "not met"})`;
+  };
+  return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, low?.power ?? null, "+") : null, efficiency ? part("pump efficiency", efficiency, low?.efficiency ?? null, "−") : null].filter(Boolean).join(", ")}${accuracyClause(pg, pg.check)}.`;
 }
 
 /** The e-mail's clause on the power reading's accuracy: none given (as read), or what the limits are within it, with the numbers. */
