@@ -5,7 +5,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { addCandidate, addCandidates, candidateSetIds, MAX_CANDIDATES, MAX_PICKS, PicksSchema, SEARCH_PAGE_ROWS, searchForSystem } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryId, QueryText } from "~/lib/shared/forms.server";
-import { DEFAULT_ADJUSTMENT, MAX_MAGNITUDE } from "~/lib/projects/hydraulics";
+import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
 import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
@@ -13,8 +13,8 @@ import { SizingCaution, VerdictView } from "~/components/workbench";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
-import { fromChosen, renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
-import { positiveFilter } from "~/lib/shared/decimal";
+import { renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
+import { readSearchFilters } from "~/lib/projects/search-filters";
 import { Pager } from "~/components/Pager";
 import { publishedOf, settingToken } from "~/lib/projects/setting-step";
 import { qt } from "~/engine/quantityText";
@@ -39,17 +39,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sys = m.user.units;
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
-  // The forms' strict reader: junk or an ambiguous 1,500 means no filter.
-  const maxPower = positiveFilter(q("maxPower"));
-  const methods = query.method.filter((x): x is "direct" | "trim" | "speed" => ["direct", "trim", "speed"].includes(x));
-  const filters = {
-    type: q("type").slice(0, 40) || undefined,
-    size: q("size").slice(0, 40) || undefined,
-    speed: positiveFilter(q("speed")),
-    maxPowerW: maxPower !== undefined && maxPower <= MAX_MAGNITUDE ? fromChosen(sys, "power", maxPower) : undefined, // past it W would overflow (1e308 kW)
-    methods: methods.length ? methods : undefined,
-    allowBeyondCatalogue: query.beyond,
-  };
+  // The forms' strict reader: a value the search cannot use is set aside, and the page says which and why.
+  const { filters, methods, notes: filterNotes } = readSearchFilters(query, sys);
   const viewer = viewerOf(m);
   const [res, onSystem] = await Promise.all([
     searchForSystem(viewer, id, filters, { page: query.page ?? 1, pageSize: SEARCH_PAGE_ROWS }),
@@ -64,6 +55,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     npshMarginWanted: res.system.input.npshMargin,
     unitSystem: sys,
     message: res.message,
+    filterNotes,
     stats: res.stats,
     npshaAtDuty: res.npshaAtDuty,
     // A custom liquid: searched at the equivalent water duty (ANSI/HI 9.6.7) where the method applies, each verdict on the liquid.
@@ -72,6 +64,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     // Which point each row's setting and figures are at, and which point ranks it.
     figuresRule: res.dutyCheck && res.system.input.duty ? `How, efficiency, vs BEP and shaft power: each pump as its verdict judges it (as the candidates table would show it): its trim or speed solved to deliver the duty flow ${qt("flow", res.system.input.duty.flow)} against the system's head there at the band's demanding edge (${qt("head", res.dutyCheck.governingHead)}, ${res.dutyCheck.governingEdge}), and the figures at its operating point, where that curve meets the system's design curve. The rank is the search's score at the typed duty (${qt("flow", res.system.input.duty.flow)} at ${qt("head", res.system.input.duty.head)}); "why this rank" quotes its figures there and says so where they differ from the row's.` : null,
     hidden: res.hidden,
+    powerFilter: res.powerFilter,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
     npshRule: res.results.find((r) => r.npsh)?.npsh?.rule ?? null,
@@ -152,6 +145,11 @@ export default function Search({ actionData }: Route.ComponentProps) {
       />
       <FormError error={(actionData as { error?: string } | undefined)?.error} />
       {d.message ? <p className="caution">{d.message}</p> : null}
+      {d.filterNotes.length ? (
+        <ul className="caution text-sm" data-testid="search-filter-notes">
+          {d.filterNotes.map((n) => <li key={n}>{n}</li>)}
+        </ul>
+      ) : null}
       <Form method="get" className="panel flex flex-wrap items-end gap-3 text-sm">
         <label>
           <span className="label">Type contains</span>
@@ -194,6 +192,11 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.stats.rejectedByNpsh ? ` · ${d.stats.rejectedByNpsh} left out because their NPSHr at the duty is above the NPSHa there (${d.npshaAtDuty != null ? fmtQExact(sys, "head", d.npshaAtDuty, [0]) : "—"})` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.overPower ? ` · ${d.hidden.overPower} above the max shaft power at their operating point left out` : ""}
+          {d.powerFilter?.cut ? (
+            <span className="caution" data-testid="search-power-cut">
+              {` · list cut: the max shaft power ${fmtPower(sys, d.powerFilter.limit)} is judged at each pump's operating point, so the search judged the ranked pumps in turn and stopped after ${d.powerFilter.judged} (${d.powerFilter.atMost} at most), ${d.powerFilter.overPower} of them above it; pumps further down the ranking that would pass are not shown (a higher limit or narrower filters show them)`}
+            </span>
+          ) : null}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
         </p>
       ) : null}

@@ -1,7 +1,8 @@
 // searchOnLiquid (pure): the index searched per speed at that speed's equivalent water duty (ANSI/HI 9.6.7, from memory,
 // engine `equivalentWaterDuty`, whose hand values are in app/engine/viscous.test.ts), the rows turned into the liquid's
 // figures and ranked together. Check values: the engine's own search run by hand on each speed's sets, and the stated
-// conversions (head × C_H, efficiency × C_η, shaft power ρ·g·Q·H/η); the curves are made up (fictional).
+// conversions (head × C_H, efficiency × C_η, shaft power ρ·g·Q·H/η); B by hand for a slowed pump; the curves are made
+// up (fictional).
 import { describe, expect, test } from "vitest";
 import { equivalentWaterDuty, G0, prepareSearchIndex, searchDuty, type CurveSet } from "~/engine";
 import { searchScore } from "~/engine/search";
@@ -68,6 +69,27 @@ describe("searchOnLiquid", () => {
     expect(plan.ranksOnLiquid).toBe(false);
     expect(plan.groups.filter((g) => g.speed !== null).every((g) => g.status === "no-correction")).toBe(true);
     expect(result).toEqual(searchDuty(index, duty, options));
+  });
+
+  test("a pump slowed down takes B at the speed it runs at: its ratio solves the water duty of that speed's B (was the curve's 2900 rpm)", () => {
+    // s2900 must be slowed to meet the oil duty. At the curve's 2900 rpm, B = 6.97 and the water duty solves to 72.12 %;
+    // slowed to about 2108 rpm, B is larger, the water head higher, and the ratio a little higher: the fixed point.
+    const one = prepareSearchIndex([set("s2900", 2900, 170, 60)]);
+    const opts = { density: 900, minSpeedRatio: 0.3 };
+    const row = searchOnLiquid(one, duty, oil, opts).result.candidates[0];
+    expect(row.method).toBe("speed");
+    const atOwn = equivalentWaterDuty({ ...duty, kinematicViscosity: oil.kinematicViscosity, speed: 2900 });
+    const ownRatio = searchDuty(one, atOwn, opts).candidates[0].ratio;
+    expect(ownRatio).toBeCloseTo(0.7212, 4); // the old estimate, B at 2900 rpm
+    const w = equivalentWaterDuty({ ...duty, kinematicViscosity: oil.kinematicViscosity, speed: 2900 * row.ratio });
+    // Hand (ANSI/HI 9.6.7's B, from memory; US units): 26.6 · 200^0.5 · 98.425 ft^0.0625 / (440.29 gpm^0.375 · (2900 · 0.72680 rpm)^0.25)
+    // = 376.18 · 1.3322 / (9.8038 · 6.7757) = 7.544.
+    expect(row.ratio).toBeCloseTo(0.7268, 4);
+    expect(w.b).toBeCloseTo(7.544, 3);
+    const again = searchDuty(one, w, { ...opts, methods: ["speed"] }).candidates[0];
+    expect(again.ratio).toBeCloseTo(row.ratio, 9); // self-consistent: that B's water duty solves to the row's own ratio
+    expect(row.efficiency!).toBeCloseTo(again.efficiency! * w.factors!.efficiency, 12); // C_η at B = 7.54, not at 6.97
+    expect(row.shaftPower!).toBeCloseTo((900 * G0 * duty.flow * again.headAtDuty * w.factors!.head) / row.efficiency!, 6);
   });
 
   test("the engine's score is searchScore (the two cannot drift apart)", () => {

@@ -4,10 +4,11 @@
 // sets and the engine's prepared index over them are read and built once per app process and kept
 // compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
 // filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
-// `searchDuty`, groups the best rows, judges at most SEARCH_EVALUATED of them (the system's evaluation
-// and its verdicts kept per system input) and returns the page of rows asked for (SEARCH_SHOWN by
-// default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that opens or closes
-// libraries is a new key, so it is seen at once; any other process builds the same.
+// `searchDuty`, groups the best rows, judges SEARCH_EVALUATED of them (with a max shaft power filter, on down the
+// ranking until that many pass it, at most SEARCH_POWER_JUDGED; the system's evaluation and its verdicts kept per
+// system input) and returns the page of rows asked for (SEARCH_SHOWN by default, SEARCH_PAGE_ROWS on the page). A
+// new revision, a saved input or a plan that opens or closes libraries is a new key, so it is seen at once; any
+// other process builds the same.
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
@@ -33,6 +34,13 @@ export type SearchFilters = {
 
 /** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
 export const SEARCH_EVALUATED = 80;
+/**
+ * With a max shaft power filter, pumps judged at most to fill the SEARCH_EVALUATED places with pumps that pass it: the
+ * filter acts on the power each verdict judges (at the operating point), so it can only act after judging, and a tight
+ * limit leaves out many of the best-ranked pumps; the search goes on down the ranking until the places are filled,
+ * the ranking ends or this many are judged (then the page says the list was cut).
+ */
+export const SEARCH_POWER_JUDGED = SEARCH_EVALUATED * 4;
 /** Rows returned at once by default (the read API); the search page shows SEARCH_PAGE_ROWS a page. */
 export const SEARCH_SHOWN = 50;
 export const SEARCH_PAGE_ROWS = 25;
@@ -206,8 +214,10 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
+  // No revision open (no library, or none with curves imported): say so, not "no pump meets this duty".
+  if (!open.length) return { system, results: [], locked, ...none, message: `No pump curves are open to you to search: ${locked.length ? "the shared libraries listed below are not open on your plan; import" : "import"} a pump library (or ask for one to be shared) first.` };
   let work: SystemWork;
   try {
     work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson, system.input);
@@ -223,6 +233,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const npshaAtDuty = npshaAtDutyOf(system.input, evaluation); // judged by the search, and shown with its count
   const duty = { flow: system.input.duty.flow, head: system.input.duty.head };
   const options = searchOptionsFor(system.input, evaluation, filters, npshaAtDuty);
+  // A max shaft power filter may leave out judged rows: the engine ranks enough for SEARCH_POWER_JUDGED groups.
+  if (filters.maxPowerW) options.limit = SEARCH_POWER_JUDGED * 2;
   // A custom liquid: searched at the equivalent water duty of ANSI/HI 9.6.7 (search-liquid.ts). Water: the engine's search alone.
   const fluid = system.input.fluid;
   const onLiquid = fluid.kind === "custom" ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, options) : null;
@@ -246,9 +258,14 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   }
   // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band;
   // the row shows that setting and its figures at the operating point (the engine's at the typed duty still rank it).
-  let outsideCatalogue = 0, overPower = 0;
+  // Judged in rank order until SEARCH_EVALUATED pass the power filter (without one: the first SEARCH_EVALUATED), the
+  // ranking ends, or, with the filter, SEARCH_POWER_JUDGED are judged.
+  let outsideCatalogue = 0, overPower = 0, judgedCount = 0;
+  const judgeAtMost = filters.maxPowerW ? SEARCH_POWER_JUDGED : SEARCH_EVALUATED;
   const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; shown: JudgedSetting | null }[] = [];
-  for (const g of [...groups.values()].slice(0, SEARCH_EVALUATED)) {
+  for (const g of groups.values()) {
+    if (judgedCount - overPower >= SEARCH_EVALUATED || judgedCount >= judgeAtMost) break;
+    judgedCount++;
     const method = g.row.method === "direct" ? "none" : g.row.method;
     const vk = `${g.set.id}#${method}`;
     let judged = verdicts.get(vk);
@@ -276,6 +293,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     }
     kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, shown: judged?.shown ?? null });
   }
+  const powerFilter = filters.maxPowerW ? powerFilterOutcome(filters.maxPowerW, judgedCount, overPower, groups.size, res) : null;
   // Pumps that meet the system rank first, then oversized, then those two with a cavitation risk somewhere on the
   // band, then short, no operating point (stable within a class).
   kept.sort((a, b) => rankClass(a) - rankClass(b));
@@ -303,7 +321,20 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     /** NPSH over the design point and the band's corners as the workbench judges it (the engine's `npshMargin` is at the duty only). */
     npsh,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, powerFilter, paging, message: null as string | null };
+}
+
+/** What the max shaft power filter did: the limit (W), pumps judged (of `atMost`) and left out above it, and whether the list was cut. */
+export type PowerFilterOutcome = { limit: number; judged: number; atMost: number; overPower: number; cut: boolean };
+
+/**
+ * Cut: the places were not all filled with passing pumps, yet the judging stopped at SEARCH_POWER_JUDGED with curves
+ * still unjudged, or the engine ranked more matching sets than it returned (its `limit`): pumps further down may pass.
+ */
+function powerFilterOutcome(limit: number, judged: number, overPower: number, groups: number, res: { candidates: readonly unknown[]; stats: { matched: number } }): PowerFilterOutcome {
+  const filled = judged - overPower >= SEARCH_EVALUATED;
+  const more = judged < groups || res.stats.matched > res.candidates.length;
+  return { limit, judged, atMost: SEARCH_POWER_JUDGED, overPower, cut: !filled && more };
 }
 
 /**
