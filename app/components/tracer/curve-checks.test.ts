@@ -4,7 +4,7 @@
 // that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
 // efficiency level. Invented curves.
 import { describe, expect, it } from "vitest";
-import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
+import { calibrations, csvOf, initialState, keyOf, tracedSets, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
 import { analyseCsv } from "~/lib/import";
 
@@ -41,6 +41,17 @@ describe("curve checks before import", () => {
     expect(p.map((x) => x.curveId)).toEqual([1, 2]);
     expect(p[1].message).toBe("Curve 1 and Curve 2 are both head curves at 2900 rpm with impeller Ø 230 mm: the CSV keeps one curve per speed and impeller, so give each its own Ø (or speed) or remove one.");
     expect(importBlock(s)).toMatch(/^Fix 2 curves before import/);
+  });
+
+  // The CSV writes a Ø to 0.1 mm (to-csv.ts): 190 and 190.04 mm are one key there. The page's key took the Ø as typed, so two
+  // such curves were two sets on the page, both written as Ø 190 mm, and the importer read their rows as one curve (refused).
+  it("takes two head curves whose Ø round to the same 0.1 mm in the CSV as one key, as the CSV does", () => {
+    const s = withCurves([curve(1, 1, 190, 50), curve(2, 1, 190.04, 45)]);
+    expect(keyOf(s.curves[0])).toBe(keyOf(s.curves[1])); // source: the CSV's one rounding (0.1 mm, csvImpellerMm): both write 190
+    expect(keyOf(s.curves[1])).toBe("2900|190"); // source: same
+    expect(tracedSets(s, calibrations(s)).length).toBe(1); // source: one key, one set (the first head curve's)
+    expect(curveProblems(s).map((x) => x.curveId)).toEqual([1, 2]); // source: curve-checks.ts (two head curves of one key are blocked)
+    expect(refusedByImport(s)).toEqual([]); // source: the importer itself, on the CSV the page would now write (one curve at Ø 190)
   });
 
   it("flags an impeller Ø left blank next to a curve of the same speed that has one, and a speed of zero", () => {

@@ -65,8 +65,15 @@ export const inCsv = (s: TracedSet) => csvHead(s).length >= 3;
 /** Whether the CSV has an impeller column: some set gives a Ø. */
 export const csvHasImpeller = (sets: readonly TracedSet[]) => sets.some((s) => impellerGiven(s.impellerMm));
 
-/** A set's key cells as the CSV writes them on each of its rows: speed, and impeller Ø (mm, 0.1 mm) or blank. */
-export const csvKeyCells = (s: TracedSet) => ({ speed: s.speedRpm, impeller: impellerGiven(s.impellerMm) ? round(s.impellerMm, 1) : null });
+/**
+ * An impeller Ø (mm) as the CSV writes it: to 0.1 mm, or null (blank) when not given. The one rounding of a Ø: the CSV's
+ * cells (csvKeyCells) and the page's curve keys (components/tracer/model.ts `keyOf`) both take it, so two curves typed
+ * 190 and 190.04 mm are one key on the page as they are one key in the CSV.
+ */
+export const csvImpellerMm = (mm: number): number | null => (impellerGiven(mm) ? round(mm, 1) : null);
+
+/** A set's key cells as the CSV writes them on each of its rows: speed, and impeller Ø (mm, 0.1 mm: csvImpellerMm) or blank. */
+export const csvKeyCells = (s: TracedSet) => ({ speed: s.speedRpm, impeller: csvImpellerMm(s.impellerMm) });
 
 /** The CSV rows (header first) for the traced sets; a set without a head curve of 3+ points is left out. */
 export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points = 15): unknown[][] {
