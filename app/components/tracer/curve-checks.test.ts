@@ -4,12 +4,21 @@
 // that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
 // efficiency level. Invented curves.
 import { describe, expect, it } from "vitest";
-import { calibrations, csvOf, initialState, withNewCurve, type Curve, type TracerState } from "./model";
+import { calibrations, csvOf, initialState, keyOf, tracedSets, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
 import { analyseCsv } from "~/lib/import";
 
-const pts = (h0: number) => Array.from({ length: 10 }, (_, i) => ({ u: 100 + 50 * i, v: 500 - h0 * 8 + i * i }));
-const curve = (id: number, panelId: number, impellerMm: number, h0: number, speedRpm = 2900): Curve => ({ id, panelId, kind: "curve", impellerMm, speedRpm, level: 0, points: pts(h0) });
+/**
+ * Ten points from flow 0 to 90 (the axis: u 100 → 0, 600 → 100); with `from`, from that flow on, 4 apart (from + 36 at the
+ * end): curves that follow each other in flow, as one curve cut in two would (the importer then refuses a blank key between them).
+ */
+const pts = (h0: number, from?: number) =>
+  Array.from({ length: 10 }, (_, i) => ({ u: from === undefined ? 100 + 50 * i : 100 + 5 * from + 20 * i, v: 500 - h0 * 8 + i * i }));
+const curve = (id: number, panelId: number, impellerMm: number, h0: number, speedRpm = 2900, from?: number): Curve =>
+  ({ id, panelId, kind: "curve", impellerMm, speedRpm, level: 0, points: pts(h0, from) });
+/** The same curve drawn over flow 0–36 (low) or 50–86 (high). */
+const low = (id: number, panelId: number, mm: number, h0: number, rpm = 2900) => curve(id, panelId, mm, h0, rpm, 0);
+const high = (id: number, panelId: number, mm: number, h0: number, rpm = 2900) => curve(id, panelId, mm, h0, rpm, 50);
 const base = initialState();
 const withCurves = (curves: Curve[]): TracerState => ({
   ...base,
@@ -43,14 +52,26 @@ describe("curve checks before import", () => {
     expect(importBlock(s)).toMatch(/^Fix 2 curves before import/);
   });
 
+  // The CSV writes a Ø to 0.1 mm (to-csv.ts): 190 and 190.04 mm are one key there. The page's key took the Ø as typed, so two
+  // such curves were two sets on the page, both written as Ø 190 mm, and the importer read their rows as one curve (refused).
+  it("takes two head curves whose Ø round to the same 0.1 mm in the CSV as one key, as the CSV does", () => {
+    const s = withCurves([curve(1, 1, 190, 50), curve(2, 1, 190.04, 45)]);
+    expect(keyOf(s.curves[0])).toBe(keyOf(s.curves[1])); // source: the CSV's one rounding (0.1 mm, csvImpellerMm): both write 190
+    expect(keyOf(s.curves[1])).toBe("2900|190"); // source: same
+    expect(tracedSets(s, calibrations(s)).length).toBe(1); // source: one key, one set (the first head curve's)
+    expect(curveProblems(s).map((x) => x.curveId)).toEqual([1, 2]); // source: curve-checks.ts (two head curves of one key are blocked)
+    expect(refusedByImport(s)).toEqual([]); // source: the importer itself, on the CSV the page would now write (one curve at Ø 190)
+  });
+
   it("flags an impeller Ø left blank next to a curve of the same speed that has one, and a speed of zero", () => {
-    const s = withCurves([curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 1, 210, 40, 0)]);
+    const s = withCurves([low(1, 1, 250, 50), high(2, 1, NaN, 45), curve(3, 1, 210, 40, 0)]);
     expect(curveProblems(s)).toEqual([
       {
         curveId: 2,
         message: "Curve 2 has no impeller Ø, and its rows in the CSV come just after those of Curve 1 at the same speed (2900 rpm) with Ø 250 mm: " +
-          "the importer reads rows of one model and speed that follow each other as one curve, so it refuses the blank Ø (it would split that curve); " +
-          "type its Ø. A curve without a Ø is imported without one when the curves next to it in the CSV are at another speed.",
+          "the importer reads rows of one model and speed that follow each other with the flow rising on from one to the next as one curve, so it refuses the blank Ø (it would split that curve); " +
+          "type its Ø. A curve without a Ø is imported without one when the curves next to it in the CSV are at another speed, or where its flow starts " +
+          "again (at or below theirs) where they meet, with the importer's key-not-given warning.",
       },
       { curveId: 3, message: "Curve 3 has speed 0 rpm: it must be above zero." },
     ]); // source: import/blank-keys.ts rule (same model and speed next to it, with a Ø); validate.ts (a speed must be above zero)
@@ -111,10 +132,12 @@ describe("curve checks before import", () => {
 
   it("blocks exactly where the importer refuses: the CSV's order decides which sets meet", () => {
     const cases: [string, Curve[], number[]][] = [
-      ["same speed next to it", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45)], [2]],
-      ["same speed, blank first", [curve(1, 1, NaN, 50), curve(2, 1, 250, 45)], [1]],
-      ["another speed between", [curve(1, 1, 250, 50), curve(2, 1, 230, 40, 1450), curve(3, 1, NaN, 45)], []],
-      ["efficiency curve of the blank set flagged too", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45), curve(3, 2, NaN, 40)], [2, 3]],
+      ["same speed next to it, flow rising on", [low(1, 1, 250, 50), high(2, 1, NaN, 45)], [2]],
+      ["same speed, blank first, flow rising on", [low(1, 1, NaN, 50), high(2, 1, 250, 45)], [1]],
+      ["same speed next to it, flow starting again", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45)], []],
+      ["same speed, blank first, flow starting again", [high(1, 1, NaN, 50), low(2, 1, 250, 45)], []],
+      ["another speed between", [low(1, 1, 250, 50), curve(2, 1, 230, 40, 1450), high(3, 1, NaN, 45)], []],
+      ["efficiency curve of the blank set flagged too", [low(1, 1, 250, 50), high(2, 1, NaN, 45), high(3, 2, NaN, 40)], [2, 3]],
       ["no Ø on any curve", [curve(1, 1, NaN, 50), curve(2, 1, NaN, 45, 1450)], []],
     ];
     for (const [what, curves, flagged] of cases) {
@@ -128,7 +151,7 @@ describe("curve checks before import", () => {
 
   it("a curve not yet in the CSV (fewer than 3 points) neither is blocked nor keeps its neighbours apart", () => {
     const empty: Curve = { ...curve(2, 1, 230, 40, 1450), points: [] };
-    const s = withCurves([curve(1, 1, 250, 50), empty, curve(3, 1, NaN, 45)]);
+    const s = withCurves([low(1, 1, 250, 50), empty, high(3, 1, NaN, 45)]);
     expect(curveProblems(s).map((p) => p.curveId)).toEqual([3]); // source: to-csv.ts leaves Curve 2 out, so Curve 3's rows follow Curve 1's (same speed)
     expect(refusedByImport(s).length).toBeGreaterThan(0); // source: the importer itself
   });
@@ -163,16 +186,17 @@ describe("curve checks before import", () => {
 
   it("blocks a blank speed exactly where the importer refuses it, and warns exactly where it warns", () => {
     const cases: [string, Curve[], number[], number[]][] = [
-      ["same Ø next to it, with a speed", [curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN)], [2], []],
-      ["same Ø, blank first", [curve(1, 1, 250, 50, NaN), curve(2, 1, 250, 45)], [1], []],
+      ["same Ø next to it, with a speed", [low(1, 1, 250, 50), high(2, 1, 250, 45, NaN)], [2], []],
+      ["same Ø, blank first", [low(1, 1, 250, 50, NaN), high(2, 1, 250, 45)], [1], []],
+      ["same Ø next to it, flow starting again", [curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN)], [], [2]],
       ["another Ø next to it", [curve(1, 1, 250, 50), curve(2, 1, 230, 45, NaN)], [], [2]],
       ["another Ø between", [curve(1, 1, 250, 50), curve(2, 1, 230, 40), curve(3, 1, 250, 45, NaN)], [], [3]],
-      ["its Ø blank too, next to a curve with a speed and a Ø", [curve(1, 1, 250, 50), curve(2, 1, NaN, 45, NaN)], [2], []],
-      ["no Ø on any curve, next to a curve with a speed", [curve(1, 1, NaN, 50), curve(2, 1, NaN, 45, NaN)], [2], []],
+      ["its Ø blank too, next to a curve with a speed and a Ø", [low(1, 1, 250, 50), high(2, 1, NaN, 45, NaN)], [2], []],
+      ["no Ø on any curve, next to a curve with a speed", [low(1, 1, NaN, 50), high(2, 1, NaN, 45, NaN)], [2], []],
       ["no Ø and no speed, alone", [curve(1, 1, NaN, 50, NaN)], [], [1]],
       ["no speed on either, each its own Ø", [curve(1, 1, 250, 50, NaN), curve(2, 1, 230, 45, NaN)], [], [1, 2]],
-      ["efficiency curve of the refused set flagged too", [curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN), curve(3, 2, 250, 40, NaN)], [2, 3], []],
-      ["its Ø blank next to a Ø without a speed", [curve(1, 1, 250, 50, NaN), curve(2, 1, NaN, 45, NaN)], [2], [1]],
+      ["efficiency curve of the refused set flagged too", [low(1, 1, 250, 50), high(2, 1, 250, 45, NaN), high(3, 2, 250, 40, NaN)], [2, 3], []],
+      ["its Ø blank next to a Ø without a speed", [low(1, 1, 250, 50, NaN), high(2, 1, NaN, 45, NaN)], [2], [1]],
     ];
     for (const [what, curves, flagged, warned] of cases) {
       const s = withCurves(curves);
@@ -189,22 +213,23 @@ describe("curve checks before import", () => {
   });
 
   it("names the rule and the curve next to it when it refuses a blank speed", () => {
-    expect(curveProblems(withCurves([curve(1, 1, 250, 50), curve(2, 1, 250, 45, NaN)]))[0].message).toBe(
+    const restarts = ", or where its flow starts again (at or below theirs) where they meet, with the importer's key-not-given warning."; // source: blank-keys.ts rule (flow starting again)
+    expect(curveProblems(withCurves([low(1, 1, 250, 50), high(2, 1, 250, 45, NaN)]))[0].message).toBe(
       "Curve 2 has no speed, and its rows in the CSV come just after those of Curve 1 at 2900 rpm with the same impeller Ø (250 mm): the importer " +
-        "reads rows of one model and impeller Ø that follow each other as one curve, so it refuses the blank speed (it would split that curve); type its " +
+        "reads rows of one model and impeller Ø that follow each other with the flow rising on from one to the next as one curve, so it refuses the blank speed (it would split that curve); type its " +
         "speed. A curve without a speed is imported without one, with the importer's warning “no speed given for this curve”, when the curves next to " +
-        "it in the CSV have another impeller Ø.",
-    ); // source: blank-keys.ts rule (same model and Ø next to it, with a speed)
-    expect(curveProblems(withCurves([curve(1, 1, NaN, 50, NaN), curve(2, 1, 230, 45)]))[0].message).toBe(
-      "Curve 1 has no speed and no impeller Ø, and its rows in the CSV come just before those of Curve 2 at 2900 rpm with Ø 230 mm: with neither key " +
+        "it in the CSV have another impeller Ø" + restarts,
+    ); // source: blank-keys.ts rule (same model and Ø next to it, with a speed, flow rising on)
+    expect(curveProblems(withCurves([low(1, 1, NaN, 50, NaN), high(2, 1, 230, 45)]))[0].message).toBe(
+      "Curve 1 has no speed and no impeller Ø, and its rows in the CSV come just before those of Curve 2 at 2900 rpm with Ø 230 mm, with the flow rising on from one to the next: with neither key " +
         "nothing tells its rows from that curve's, so the importer refuses the blank speed (it would split that curve); type its speed. A curve without " +
         "a speed is imported without one, with the importer's warning “no speed given for this curve”, when it has an impeller Ø and the curves next " +
-        "to it in the CSV have another.",
+        "to it in the CSV have another" + restarts,
     ); // source: blank-keys.ts rule (its other key blank too)
-    expect(curveProblems(withCurves([curve(1, 1, 250, 50, NaN), curve(2, 1, NaN, 45, NaN)]))[0].message).toBe(
-      "Curve 2 has no impeller Ø and no speed, and its rows in the CSV come just after those of Curve 1 with Ø 250 mm and no speed: with neither key " +
+    expect(curveProblems(withCurves([low(1, 1, 250, 50, NaN), high(2, 1, NaN, 45, NaN)]))[0].message).toBe(
+      "Curve 2 has no impeller Ø and no speed, and its rows in the CSV come just after those of Curve 1 with Ø 250 mm and no speed, with the flow rising on from one to the next: with neither key " +
         "nothing tells its rows from that curve's, so the importer refuses the blank Ø (it would split that curve); type its Ø. A curve without a Ø " +
-        "is imported without one when it has a speed and the curves next to it in the CSV are at another speed.",
+        "is imported without one when it has a speed and the curves next to it in the CSV are at another speed" + restarts,
     ); // source: blank-keys.ts rule (its other key blank too)
   });
 

@@ -3,7 +3,8 @@
 // The CSV keeps one curve per (quantity, speed, impeller Ø) — tracedSets takes the first head curve of a
 // key and one curve of each other quantity — so a second curve of one key would vanish without a word;
 // the importer refuses a blank speed or impeller Ø where it would split a curve (the set next to it in the CSV has the
-// same other key and a value, or its own other key is blank too: the importer's own rule, run on the CSV's key cells by
+// same other key and a value, or its own other key is blank too, and the flow rises on from one to the other where they
+// meet; where it starts again, the set is one of its own: the importer's own rule, run on the CSV's key cells and flows by
 // refusedBlankKeys; a set without a Ø at a speed of its own, or without a speed at a Ø of its own, is imported without
 // it — without a speed, with the importer's no-speed warning, which curveWarnings names) and a speed or Ø typed at zero
 // or below; a curve of another quantity with no head curve of its key is left out of the CSV; a contour drawn without
@@ -25,6 +26,9 @@ const atKey = (c: Curve) => (speedTyped(c.speedRpm) ? `at ${c.speedRpm} rpm with
 const list = (cs: Curve[]) => (cs.length === 2 ? `${name(cs[0])} and ${name(cs[1])}` : `${cs.slice(0, -1).map(name).join(", ")} and ${name(cs[cs.length - 1])}`);
 const order = (r: RefusedBlank) => (r.where === "above" ? "just after" : "just before");
 const warned = `with the importer's warning “${NO_SPEED_WARNING}”`;
+/** The flow where two sets meet in the CSV: rising on from one to the next continues a curve; starting again (not above) begins one. */
+const rising = "with the flow rising on from one to the next";
+const restarts = ", or where its flow starts again (at or below theirs) where they meet, with the importer's key-not-given warning";
 
 /** A contour with points but no efficiency level above zero (blank is NaN, a new contour's 0), or null. */
 function contourProblem(c: Curve): string | null {
@@ -38,11 +42,11 @@ function speedRefused(c: Curve, r: RefusedBlank, next: string, nextMm: number): 
   const rows = `its rows in the CSV come ${order(r)} those of ${next} at ${r.value} rpm`;
   if (!r.otherBlank && impellerGiven(c.impellerMm))
     return `${name(c)} has no speed, and ${rows} with the same impeller Ø (${c.impellerMm} mm): the importer reads rows of one model and impeller Ø ` +
-      `that follow each other as one curve, so it refuses the blank speed (it would split that curve); type its speed. A curve without a speed ` +
-      `is imported without one, ${warned}, when the curves next to it in the CSV have another impeller Ø.`;
-  return `${name(c)} has no speed and no impeller Ø, and ${rows}${impellerGiven(nextMm) ? ` with Ø ${nextMm} mm` : ""}: with neither key ` +
+      `that follow each other ${rising} as one curve, so it refuses the blank speed (it would split that curve); type its speed. A curve without a speed ` +
+      `is imported without one, ${warned}, when the curves next to it in the CSV have another impeller Ø${restarts}.`;
+  return `${name(c)} has no speed and no impeller Ø, and ${rows}${impellerGiven(nextMm) ? ` with Ø ${nextMm} mm` : ""}, ${rising}: with neither key ` +
     `nothing tells its rows from that curve's, so the importer refuses the blank speed (it would split that curve); type its speed. A curve ` +
-    `without a speed is imported without one, ${warned}, when it has an impeller Ø and the curves next to it in the CSV have another.`;
+    `without a speed is imported without one, ${warned}, when it has an impeller Ø and the curves next to it in the CSV have another${restarts}.`;
 }
 
 /** The message for a blank impeller Ø the importer refuses; `nextRpm`: the speed of the curve next to it. */
@@ -50,11 +54,11 @@ function impellerRefused(c: Curve, r: RefusedBlank, next: string, nextRpm: numbe
   const rows = `its rows in the CSV come ${order(r)} those of ${next}`;
   if (!r.otherBlank)
     return `${name(c)} has no impeller Ø, and ${rows} at the same speed (${c.speedRpm} rpm) with Ø ${r.value} mm: the importer reads rows of one ` +
-      `model and speed that follow each other as one curve, so it refuses the blank Ø (it would split that curve); type its Ø. A curve without ` +
-      `a Ø is imported without one when the curves next to it in the CSV are at another speed.`;
-  return `${name(c)} has no impeller Ø and no speed, and ${rows} with Ø ${r.value} mm${speedTyped(nextRpm) ? ` at ${nextRpm} rpm` : " and no speed"}: ` +
+      `model and speed that follow each other ${rising} as one curve, so it refuses the blank Ø (it would split that curve); type its Ø. A curve without ` +
+      `a Ø is imported without one when the curves next to it in the CSV are at another speed${restarts}.`;
+  return `${name(c)} has no impeller Ø and no speed, and ${rows} with Ø ${r.value} mm${speedTyped(nextRpm) ? ` at ${nextRpm} rpm` : " and no speed"}, ${rising}: ` +
     `with neither key nothing tells its rows from that curve's, so the importer refuses the blank Ø (it would split that curve); type its Ø. ` +
-    `A curve without a Ø is imported without one when it has a speed and the curves next to it in the CSV are at another speed.`;
+    `A curve without a Ø is imported without one when it has a speed and the curves next to it in the CSV are at another speed${restarts}.`;
 }
 
 /**
@@ -64,7 +68,7 @@ function impellerRefused(c: Curve, r: RefusedBlank, next: string, nextRpm: numbe
 function refusedBlanks(s: TracerState, cals: Map<number, Calibration | string>, heads: Curve[]): Map<string, (c: Curve) => string> {
   const sets = tracedSets(s, cals);
   const out = new Map<string, (c: Curve) => string>();
-  for (const [i, why] of refusedBlankKeys(sets)) {
+  for (const [i, why] of refusedBlankKeys(sets, s.flowUnit)) {
     const r = why.speed ?? why.impeller!;
     const by = heads.find((h) => keyOf(h) === keyOf(sets[r.by]));
     const next = by ? name(by) : "the curve";

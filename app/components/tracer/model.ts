@@ -1,7 +1,7 @@
 // The tracer page's working state and what is derived from it (calibrations, data points, CSV).
 // Pure TypeScript: the maths lives in app/lib/tracer; this only wires the page's choices to it.
 import {
-  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, impellerGiven, resample, toAxis, toData, tracedCsv,
+  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, csvImpellerMm, resample, toAxis, toData, tracedCsv,
   type AxisRef, type AxisScale, type Calibration, type Contour, type Crossing, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
 } from "~/lib/tracer";
 import type { UnreadPeak } from "~/lib/tracer/peak";
@@ -153,8 +153,8 @@ export function contourEfficiency(s: TracerState, head: Curve, cals: Map<number,
   return contourReading(s, head, cals).efficiency;
 }
 
-/** A curve's (or a traced set's) key in the CSV: speed and impeller Ø (blank when not given). */
-export const keyOf = (c: Pick<Curve, "speedRpm" | "impellerMm">) => `${c.speedRpm}|${impellerGiven(c.impellerMm) ? c.impellerMm : ""}`;
+/** A curve's (or a traced set's) key in the CSV: speed and impeller Ø as the CSV writes it (0.1 mm, csvImpellerMm; blank when not given). */
+export const keyOf = (c: Pick<Curve, "speedRpm" | "impellerMm">) => `${c.speedRpm}|${csvImpellerMm(c.impellerMm) ?? ""}`;
 
 /** The head curves of the page, and each curve's quantity and unit (its panel's). */
 function panelsOf(s: TracerState) {

@@ -38,6 +38,36 @@ describe("a blank key cell as “not given” for a set of its own", () => {
   });
 });
 
+// One model at one speed with and without a diameter, as our export writes it: the set without one after the set with one,
+// its flow from the start again. Those rows were refused as a break in the curve above (missing-value on each).
+describe("a blank key run where the flow starts again is a set of its own, named", () => {
+  it("after the set with a diameter: two sets, a key-not-given warning on the run's first line", () => {
+    const r = analyseCsv(csv(...curve("A", "2900", "200"), ...curve("A", "2900", ""))).result;
+    expect(r.problems.map((p) => [p.row, p.column, p.code, p.severity, p.curveKey])).toEqual([[5, "Impeller (mm)", "key-not-given", "warning", "A|2900|"]]); // source: construction, lines 5-7 (flow 20 on line 4, then 0)
+    expect(r.problems[0].reason).toBe(
+      "impeller diameter is empty on lines 5–7: read as a curve of its own without one. Line 4 above it (same model and speed) has 200, but the flow " +
+        "starts again where they meet (20 on line 4, 0 on line 5, as written): a curve's flow rises along it, so these rows are not part of that curve " +
+        "(rule: a blank key cell is \"not given\" for its set unless it would split a curve). If they are that curve's rows with its impeller diameter left out, fill it in.",
+    ); // source: blank-keys.ts besideReason (rule and cells)
+    expect(r.curveSets.map((c) => [c.key, c.impellerDiameter, c.points.length, c.ok])).toEqual([["A|2900|200", 0.2, 3, true], ["A|2900|", null, 3, true]]); // source: construction
+  });
+
+  it("before the set with a diameter, and between two: each side where they meet starts again", () => {
+    expect(analyseCsv(csv(...curve("A", "2900", ""), ...curve("A", "2900", "200"))).result.problems.map((p) => [p.row, p.code])).toEqual([[2, "key-not-given"]]); // source: construction (20 on line 4, then 0 on line 5)
+    const between = analyseCsv(csv(...curve("A", "2900", "250"), ...curve("A", "2900", ""), ...curve("A", "2900", "200"))).result;
+    expect(between.problems.map((p) => [p.row, p.code])).toEqual([[5, "key-not-given"]]); // source: construction
+    expect(between.curveSets.map((c) => c.key)).toEqual(["A|2900|250", "A|2900|", "A|2900|200"]); // source: construction
+  });
+
+  it("the flow equal where they meet starts again too; rising on one side is a break, refused as before", () => {
+    expect(analyseCsv(csv(...curve("A", "2900", "200"), ...curve("A", "2900", "", 20))).result.problems.map((p) => p.code)).toEqual(["key-not-given"]); // source: 20 then 20: not rising (flow-not-increasing's rule)
+    const rising = analyseCsv(csv(...curve("A", "2900", "250"), ...curve("A", "2900", "", 30))).result; // 20 on line 4, then 30
+    expect(rising.problems.map((p) => [p.row, p.code])).toEqual([5, 6, 7].map((row) => [row, "missing-value"])); // source: blank-keys.ts rule (a break)
+    const oneSide = analyseCsv(csv(...curve("A", "2900", "250"), ...curve("A", "2900", "", 30), ...curve("A", "2900", "200"))).result;
+    expect(oneSide.problems.filter((p) => p.severity === "error").map((p) => p.row)).toEqual([5, 6, 7]); // source: same (rising from above; starting again below does not undo it)
+  });
+});
+
 describe("a blank key cell that would split a curve is refused by line and column", () => {
   it("a blank diameter between rows of the same model and speed that have one: one error on that row, charged to the curve", () => {
     const rows = curve("A", "2900", "200").concat("A,2900,200,30,31");

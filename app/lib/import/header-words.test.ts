@@ -103,7 +103,7 @@ describe("a motor's power and a rated power are ratings, assumed", () => {
       const reason = warnings(a)[0].reason;
       expect(reason).toContain(`“${header}” is left unmapped, assumed: a rating (a nameplate figure, one for all points`); // source: rated-power.ts
       expect(reason).toContain("Rule: a power header with rated, nominal, nameplate, Nenn… or Bemessung… and no word for the input"); // source: importer rule (states its rule)
-      expect(reason).toContain("“P2” or “shaft” in the header would make it the pump's shaft power"); // source: same (how to change it in the file)
+      expect(reason).toContain("without the rating word (“P2”, “Shaft power”) the header is the pump's shaft power at each point"); // source: same (how to change it in the file)
       expect(reason).toContain("It may also be the pump's shaft power (P2) at each point, if the values change along the curve: then choose “Shaft power”"); // source: the other reading
       expect(a.result.curveSets[0].points.every((p) => p.power === undefined)).toBe(true); // source: no power column mapped (was 7500 W at every point)
     },
@@ -135,13 +135,43 @@ describe("a motor's power and a rated power are ratings, assumed", () => {
     ["Motor power P1", "input", "ignore"], // source: P1 named
     ["Motor electrical power", "input", "ignore"], // source: electrical named
     ["Rated input power P1 (kW)", "input", "ignore"], // source: P1 named, as before
-    ["Rated power P2", null, "power"], // source: P2 named: shaft power (common practice)
-    ["Rated shaft power", null, "power"], // source: shaft named
-    ["Rated absorbed power", null, "power"], // source: absorbed power is shaft power in pump data (common practice)
+    ["Rated power P2", "rated", "ignore"], // source: a rated P2 is the shaft power at one duty, a nameplate figure (common practice); was shaft power
+    ["Rated absorbed power", "rated", "ignore"], // source: same (absorbed power is shaft power in pump data, common practice); was shaft power
     ["Motor output kW", null, "power"], // source: a motor's output is the pump's shaft power (definition), as before
   ])("“%s”: kind %s, field %s", (header, kind, field) => {
     expect(headerPowerKind(header)).toBe(kind); // source: see the row
     expect(analyseCsv(file(`Flow m3/h,Head m,${header}`, ["0,20,1.0", "10,19,1.2", "20,17,1.4"])).mapping.columns[4].field).toBe(field); // source: see the row
+  });
+
+  // A rating is not a curve reading, whatever power it rates: "Rated power P2", "Rated shaft power", "P2 rated" were mapped as the
+  // shaft power at every point (a 7.5 kW rating became 7.5 kW at shutoff and at run-out), while "Rated power kW" was left out.
+  it.each(["Rated power P2", "Rated shaft power", "P2 rated", "Nameplate power", "Rated absorbed power", "P2 nominal (kW)", "Nenn-Wellenleistung", "Rated BHP"])(
+    "“%s” is a rating, left out as “Rated power kW” is, assumed, with the rule and the other readings",
+    (header) => {
+      const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, rating));
+      expect([headerPowerKind(header), a.mapping.columns[4].field]).toEqual(["rated", "ignore"]); // source: a rated power is one nameplate figure (common practice)
+      expect(warnings(a).map((p) => [p.row, p.column])).toEqual([[1, header]]); // source: importer rule (one warning on the header line, no power column mapped)
+      const reason = warnings(a)[0].reason;
+      expect(reason).toContain(`“${header}” is left unmapped, assumed: a rating`); // source: rated-power.ts (says what is assumed)
+      expect(reason).toContain("Rule: a power header with rated, nominal, nameplate, Nenn… or Bemessung… and no word for the input (P1, input, electrical) is read as a rating, also beside P2, shaft, brake or absorbed"); // source: importer rule (states it)
+      expect(reason).toContain("It may also be the pump's shaft power (P2) at each point, if the values change along the curve: then choose “Shaft power”"); // source: the other reading
+      expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([undefined, undefined, undefined]); // source: no power column mapped (was 7500 W at every point)
+    },
+  );
+
+  it.each<[string, string | null, string]>([
+    ["P2", null, "power"], // source: P2 is the shaft power at each point (common practice)
+    ["P2 kW", null, "power"], // source: same
+    ["Shaft power", null, "power"], // source: shaft named, no rating word
+    ["Brake power kW", null, "power"], // source: brake power is shaft power (common practice)
+    ["Shaft power at rated speed kW", null, "power"], // source: “at rated speed” is the curve's condition, not a rating
+    ["Power at rated speed", null, "power"], // source: same (was left out as a rating)
+    ["Power input P1", "input", "ignore"], // source: P1 is the motor's electrical input (common practice), as before
+  ])("“%s” is a reading at each point: kind %s, field %s", (header, kind, field) => {
+    const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, ["0,20,1.0", "10,19,1.2", "20,17,1.4"]));
+    expect([headerPowerKind(header), a.mapping.columns[4].field]).toEqual([kind, field]); // source: see the row
+    if (field === "power") expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([1000, 1200, 1400]); // source: 1.0, 1.2, 1.4 in kW (assumed or read), SI prefixes
+    if (field === "power") expect(a.result.problems.filter((p) => p.code === "mapping")).toEqual([]); // source: importer rule (a reading needs no warning)
   });
 
   it("a P2 column beside “Motor kW” is the power column, and the motor column needs no warning", () => {

@@ -12,6 +12,7 @@ import { sniffCsv, type SniffResult } from "./sniff";
 import { unknownUnitProblems } from "./units-row";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
+import { withRatingValues } from "./rated-values";
 
 export interface AnalyseOptions {
   /** Try the fast path for clean long-layout files first (default true; tests turn it off to compare). */
@@ -93,7 +94,9 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
     rows.length === 0 && !fatal
       ? [{ row: headerLine, column: null, reason: "the file has no data rows below its header", severity: "error", code: "missing-value", curveKey: null }]
       : [];
-  const problems = [...structural, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
+  // A rating column mapped to power all the same is kept (the user's choice); its warning gets the values, curve by curve (rated-values.ts).
+  const said = fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
+  const problems = [...said, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
   return withRows({
     ...base,

@@ -9,7 +9,7 @@
  * header also says electrical; so is a motor's output ("Motor output kW": what the motor's shaft gives the pump's).
  * A motor's rated output ("Rated motor output kW", "Nennleistung Motor", "Motor rating kW") is its size: left out too, with its own message (RATED_MOTOR_POWER).
  * A motor's power with no word for input, output or rating ("Motor power", "Motor kW", "Motorleistung") is taken to be its rating,
- * as in vendor catalogues, and a rated power with no motor word ("Rated power kW", "Nennleistung") a rating too: both assumed, left
+ * as in vendor catalogues, and a rated power with no motor word ("Rated power kW", "Nennleistung", "Rated power P2") a rating too: both assumed, left
  * out, and said so with the other readings (inputPowerKind "motor", namesRatedPower; what is said of them is in rated-power.ts).
  * Pure: no Node or DOM APIs. Patterns run on the normalised, lower-case header.
  */
@@ -40,8 +40,6 @@ const RATED = /\brated\b|\bnominal|\bnameplate\b|\bnenn|\bbemessung/;
 const NENNLEISTUNG = /nennleistung|bemessungsleistung/;
 /** Beside a motor word, "rating" and "size" name its rating too ("Motor rating kW", "Motor size kW"). */
 const MOTOR_RATING = /\brating\b|\bsize\b/;
-/** "Absorbed power", "puissance absorbée": the pump's shaft power in pump data (common practice). */
-const ABSORBED = /absorb/;
 const namesRating = (norm: string) => RATED.test(norm) || NENNLEISTUNG.test(norm);
 /** P2, shaft or brake words, or a motor's (not rated) output. */
 const namesShaft = (norm: string) => SHAFT.test(norm) || (MOTOR_OUTPUT.test(norm) && !namesRating(norm) && !MOTOR_RATING.test(norm));
@@ -83,12 +81,22 @@ export function inputPowerKind(norm: string): "input" | "rated-motor" | "motor" 
 }
 
 /**
+ * A rating word that names the condition the curve is drawn at, not the power: "Shaft power at rated speed", "P2 @ nominal rpm",
+ * "Leistung bei Nenndrehzahl" are the power at each point of the curve at that speed (frequency, voltage), not a rating.
+ */
+const RATED_CONDITION = /\b(?:rated|nominal|nameplate)\s*-?\s*(?:speed|rpm|frequency|freq|voltage)\b|\b(?:nenn|bemessungs)\s*-?\s*(?:drehzahl|frequenz|spannung)/g;
+
+/**
  * True when a power header (already normalised) names a rated, nominal or nameplate power ("Rated power kW", "Nominal power",
- * "Nennleistung", "Bemessungsleistung", "Rated output kW") and no P1, P2, shaft, brake, absorbed, input, electrical or motor word:
- * a rating, one figure for all points, assumed (rated-power.ts). "Rated power P2" and "Rated shaft power" stay shaft power.
+ * "Nennleistung", "Bemessungsleistung", "Rated output kW", and with a shaft word too: "Rated power P2", "Rated shaft power",
+ * "P2 rated", "Rated absorbed power", "Nenn-Wellenleistung") and no P1, input (other than the pump's own input) or electrical
+ * word: a rating, one figure for all points (the shaft power at the rated duty, or the motor's size), assumed (rated-power.ts).
+ * A header reaching here with a motor word has a shaft word too ("Rated motor shaft power"): input-power kinds go first.
+ * "P2", "Shaft power" (no rating word) and "Shaft power at rated speed" (a condition, RATED_CONDITION) stay shaft power.
  */
 export function namesRatedPower(norm: string): boolean {
-  return namesRating(norm) && !P1.test(norm) && !namesShaft(norm) && !ELECTRICAL.test(norm) && !INPUT.test(norm) && !ABSORBED.test(norm);
+  const n = norm.replace(RATED_CONDITION, " ");
+  return namesRating(n) && !P1.test(n) && !ELECTRICAL_WORDS.test(n) && (!INPUT.test(n) || PUMP_INPUT.test(n));
 }
 
 /** A power column that is not the pump's shaft power: what its header names, and why reading it as P2 misleads. */

@@ -5,9 +5,11 @@
  *   rating: "Motor power", "Motor kW", "Motor power kW", "Motorleistung", "Puissance moteur". In vendor catalogues such a
  *   column is usually the motor's rated output, its nameplate kW (common practice); it may also be the motor's electrical
  *   input (P1) at each point, or the pump's shaft power at each point.
- * - kind "rated": rated, nominal, nameplate, Nenn…, Bemessung… with no motor word and no P1, P2, shaft, brake, absorbed,
- *   input or electrical word: "Rated power kW", "Nominal power", "Nennleistung", "Rated output kW". A nameplate figure: the
- *   motor's rated output, or the pump's power at its rated point; rarely a shaft power curve under a loose name.
+ * - kind "rated": rated, nominal, nameplate, Nenn…, Bemessung… with no P1, input or electrical word, with or without a shaft
+ *   word: "Rated power kW", "Nominal power", "Nennleistung", "Rated output kW", "Rated power P2", "Rated shaft power", "P2 rated",
+ *   "Nameplate power". A nameplate figure: the motor's rated output, or the pump's shaft power at its rated point (a rated P2 is
+ *   the shaft power at one duty, not along the curve); rarely a shaft power curve under a loose name. "P2" and "Shaft power" are
+ *   readings at each point; "at rated speed" names the curve's condition, not a rating (input-power.ts namesRatedPower).
  * Neither reading is the shaft power at each point that Dutymark's power field holds, so the column is left unmapped
  * ("ignore"), and checkMapping and the mapping page say what was assumed, by which rule, the other readings and what to
  * choose for each (assumedPowerMessage, power-kinds.ts). The suggestion is made from the header alone: the values do not
@@ -53,11 +55,13 @@ export const MOTOR_POWER: AssumedPower = {
 /** "Rated power kW", "Nennleistung": a rating, assumed. */
 export const RATED_POWER: AssumedPower = {
   assumed:
-    "a rating (a nameplate figure, one for all points: the motor's rated output, or the pump's power at its rated point), " +
+    "a rating (a nameplate figure, one for all points: the motor's rated output, or the pump's shaft power at its rated point), " +
     "not the pump's shaft power at each point",
   rule:
-    "a power header with rated, nominal, nameplate, Nenn… or Bemessung… and no word for the input (P1, input, electrical), the shaft " +
-    "(P2, shaft, brake, absorbed) or the motor is read as a rating; “P2” or “shaft” in the header would make it the pump's shaft power",
+    "a power header with rated, nominal, nameplate, Nenn… or Bemessung… and no word for the input (P1, input, electrical) is read as a " +
+    "rating, also beside P2, shaft, brake or absorbed (a rated shaft power is the shaft power at one duty, the rated point); " +
+    "without the rating word (“P2”, “Shaft power”) the header is the pump's shaft power at each point, and “at rated speed” names " +
+    "the speed the curve is drawn at, not a rating",
   others: "the pump's shaft power (P2) at each point, if the values change along the curve: then choose “Shaft power” for the column",
   note:
     "assumed: a rating (one figure for all points), not the shaft power (P2) at each point; if it is the shaft power at each point, " +

@@ -24,7 +24,8 @@ export type ProblemCode =
   | "header-changed"
   | "run-out"
   | "inconsistent"
-  | "power-constant";
+  | "power-constant"
+  | "key-not-given";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -34,7 +34,7 @@ import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesT
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
-import { rowModel, splittingBlanks, type KeyColumn } from "./blank-keys";
+import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { constantPowerReason, PowerRun } from "./constant-power";
 import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
@@ -126,7 +126,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   const add = (row: number, column: string | null, code: ProblemCode, reason: string, curve: string | null, severity: "error" | "warning" = "error") =>
     problems.push({ row, column, reason, severity, code, curveKey: curve });
 
-  const splits = splittingBlanks(rows, opts.decimalComma);
+  const { splits, beside } = blankKeyRuns(rows, opts.decimalComma);
   for (let ri = 0; ri < rows.length; ri++) {
     const lr = rows[ri];
     const rowProblems: Array<Omit<Problem, "curveKey">> = [];
@@ -226,6 +226,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       continue;
     }
     const key = curveKey(model, speed ?? null, impeller ?? null);
+    const aside = beside.get(ri); // blank key cells read as a set of their own beside a curve that has the value (blank-keys.ts)
+    for (const f of ["speed", "impeller"] as const) if (aside?.[f]) add(lr.line, lr.cells[f]!.column, "key-not-given", besideReason(aside[f]!, f), key, "warning");
     if (lastKeyInBlock.get(lr.block) !== key) {
       runOfBlock.set(lr.block, ++runCounter);
       lastKeyInBlock.set(lr.block, key);

@@ -11,10 +11,10 @@ export const EXPORT_HEADER = "model,type,size,speed_rpm,impeller_mm,flow_m3h,hea
  * and imports again with the diameter (speed) not given. Each set writes its value on every row, and a
  * set without one writes blank cells beside sets with one: the importer reads them as "not given" for
  * that set (import/blank-keys.ts), so a library mixing both imports again (export-roundtrip.test.ts,
- * export-property.test.ts). Limit: one model at one speed both with and without a diameter (only a wide
- * file with a speed-only block and a diameter block at the same speed makes it) writes one group of
- * rows that disagree, which the importer refuses by line and column (missing-value): a blank there could
- * as well be a break in the curve above.
+ * export-property.test.ts). One model at one speed both with and without a diameter (only a wide file
+ * with a speed-only block and a diameter block at the same speed makes it) writes the two sets one after
+ * the other under the same model and speed; the flow starts again between them, so the importer reads the
+ * blank rows as a set of their own, with a `key-not-given` warning (blank-keys.ts; it refused them before).
  */
 export function curvesToCsv(curves: LibraryCurveSet[]): string {
   const n = (x: number | null, scale: number, digits: number) => (x == null ? null : +(x * scale).toFixed(digits));

@@ -107,6 +107,19 @@ describe("library CSV export → import into a fresh library", () => {
     const csv = await roundTrip("mixed speed", first.curves, first.libId);
     expect(csv.split("\n").slice(1, 5)).toEqual(["Invented MX 80,,,,250,0,42,,,", "Invented MX 80,,,,250,30,40,,,", "Invented MX 80,,,,250,60,33,,,", "Invented MX 80,,,1450,,0,11,,,"]); // source: construction
   });
+
+  // One model at one speed both with a diameter and without one: a wide file with a diameter block beside a speed-only block
+  // at the same speed (invented). Its export writes the two sets one after the other under the same model and speed; the
+  // blank impeller_mm rows were refused as a break in the curve above (missing-value on each), so the library did not import again.
+  test("a library holding one model at one speed with and without a diameter imports again: same sets, points and diameters", async () => {
+    const text = ["Model,Speed (rpm),Q 250mm (m3/h),H 250mm (m),Q@2900 rpm (m3/h),H@2900 rpm (m)",
+      ...head.map((h, i) => ["Invented MX 100", 2900, ...h, low[i][0] * 2, low[i][1] * 4].join(","))].join("\n") + "\n";
+    const first = await importedLibrary("same speed", text);
+    expect(first.errors).toBe(0); // source: construction (two blocks, two sets)
+    expect(first.curves.map((c) => [c.speed, c.impellerDiameter])).toEqual([[2900, 0.25], [2900, null]]); // source: construction (the file's two blocks)
+    const csv = await roundTrip("same speed", first.curves, first.libId);
+    expect(csv.split("\n").slice(3, 7)).toEqual(["Invented MX 100,,,2900,250,60,33,,,", "Invented MX 100,,,2900,,0,44,,,", "Invented MX 100,,,2900,,30,40,,,", "Invented MX 100,,,2900,,60,32,,,"]); // source: construction (the 250 mm set, then its blank-Ø rows: flow starts again at 0)
+  });
 });
 
 describe("curvesToCsv key columns", () => {
@@ -127,9 +140,10 @@ describe("curvesToCsv key columns", () => {
     expect(a.result.curveSets.map((c) => [c.key, c.impellerDiameter, c.points.length, c.ok])).toEqual([["A|2900|200", 0.2, 3, true], ["B|2900|", null, 3, true]]); // source: construction
   });
 
-  test("limit: one model at one speed with and without a diameter is one group whose rows disagree, refused by line and column", () => {
+  test("one model at one speed with and without a diameter: the blank rows, where the flow starts again, are a set of their own, named", () => {
     const a = analyseCsv(curvesToCsv([set("A", 2900, 0.2), set("A", 2900, null)]));
-    expect(a.result.problems.filter((p) => p.severity === "error").map((p) => [p.row, p.column, p.code])).toEqual([5, 6, 7].map((row) => [row, "impeller_mm", "missing-value"])); // source: construction, lines 5-7 (header, three rows of the first set)
-    expect(a.result.problems[0].reason).toContain("line 4 above it (same model and speed) has 200"); // source: construction (the first set's last row)
+    expect(a.result.problems.map((p) => [p.row, p.column, p.code, p.severity])).toEqual([[5, "impeller_mm", "key-not-given", "warning"]]); // source: construction, line 5 (header, three rows of the first set); was missing-value on lines 5-7
+    expect(a.result.problems[0].reason).toContain("Line 4 above it (same model and speed) has 200, but the flow starts again where they meet (7.2 on line 4, 0 on line 5, as written)"); // source: construction (0.002 m³/s = 7.2 m³/h, then 0)
+    expect(a.result.curveSets.map((c) => [c.key, c.impellerDiameter, c.points.length, c.ok])).toEqual([["A|2900|200", 0.2, 3, true], ["A|2900|", null, 3, true]]); // source: construction
   });
 });

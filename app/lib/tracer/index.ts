@@ -4,5 +4,5 @@ export { calibrate, toData, toAxis, toPixel, axisToPixel, axisValue, TraceInputE
 export { colourMask, colourAt, traceMask, traceIsland, normaliseBox, type Rgba, type Rgb, type Box, type TraceOptions } from "./mask";
 export { crossings, contourGaps, efficiencyFromContours, type Contour, type ContourGap, type Crossing } from "./contours";
 export { cleanPoints, resample, valueAt, engineSmooth, type XY } from "./curves";
-export { tracedCsv, tracedRows, impellerGiven, inCsv, CSV_HEADER, type TracedSet, type TraceUnits, type Quantity } from "./to-csv";
+export { tracedCsv, tracedRows, impellerGiven, csvImpellerMm, inCsv, CSV_HEADER, type TracedSet, type TraceUnits, type Quantity } from "./to-csv";
 export { refusedBlankKeys, type RefusedBlank } from "./blank-keys";

@@ -13,14 +13,14 @@
  * contours: between two crossings of one level, contours.ts) and written at its `peaks`, rows of their
  * own (the middle of the innermost contour, when the user took it as the BEP). The impeller column is
  * left out when no set gives an impeller Ø (> 0): the importer reads such curves without one; a blank
- * Ø beside others is written blank: "not given" for its set, unless the set next to it has the same speed and a Ø, which
- * the importer refuses. A blank speed is written blank too: "not given" for its set (with the importer's no-speed warning),
- * unless the set next to it has the same Ø (or its own Ø is blank too) and a speed. blank-keys.ts says which the importer
- * refuses; the page asks for those first.
+ * Ø beside others is written blank: "not given" for its set, unless the set next to it has the same speed and a Ø and the
+ * flow rises on from one to the other, which the importer refuses. A blank speed is written blank too: "not given" for its set
+ * (with the importer's no-speed warning), unless the set next to it has the same Ø (or its own Ø is blank too) and a speed,
+ * the flow rising on. blank-keys.ts says which the importer refuses; the page asks for those first.
  */
 import { toCsv } from "~/lib/shared/csv";
 import { SI_FACTOR, type Unit } from "~/lib/import";
-import { resample, valueAt, type XY } from "./curves";
+import { cleanPoints, resample, valueAt, type XY } from "./curves";
 
 export const CSV_HEADER = ["model", "type", "size", "speed_rpm", "impeller_mm", "flow_m3h", "head_m", "efficiency_pct", "power_kw", "npshr_m"];
 const IMPELLER_COLUMN = CSV_HEADER.indexOf("impeller_mm");
@@ -65,8 +65,22 @@ export const inCsv = (s: TracedSet) => csvHead(s).length >= 3;
 /** Whether the CSV has an impeller column: some set gives a Ø. */
 export const csvHasImpeller = (sets: readonly TracedSet[]) => sets.some((s) => impellerGiven(s.impellerMm));
 
-/** A set's key cells as the CSV writes them on each of its rows: speed, and impeller Ø (mm, 0.1 mm) or blank. */
-export const csvKeyCells = (s: TracedSet) => ({ speed: s.speedRpm, impeller: impellerGiven(s.impellerMm) ? round(s.impellerMm, 1) : null });
+/**
+ * An impeller Ø (mm) as the CSV writes it: to 0.1 mm, or null (blank) when not given. The one rounding of a Ø: the CSV's
+ * cells (csvKeyCells) and the page's curve keys (components/tracer/model.ts `keyOf`) both take it, so two curves typed
+ * 190 and 190.04 mm are one key on the page as they are one key in the CSV.
+ */
+export const csvImpellerMm = (mm: number): number | null => (impellerGiven(mm) ? round(mm, 1) : null);
+
+/** A set's key cells as the CSV writes them on each of its rows: speed, and impeller Ø (mm, 0.1 mm: csvImpellerMm) or blank. */
+export const csvKeyCells = (s: TracedSet) => ({ speed: s.speedRpm, impeller: csvImpellerMm(s.impellerMm) });
+
+/** A set's first and last flow as the CSV writes them (m³/h, 4 decimals), from the axis's `flowUnit`; the set must be inCsv. */
+export function csvFlowEnds(s: TracedSet, flowUnit: Unit): [number, number] {
+  const ps = cleanPoints(csvHead(s));
+  const at = (x: number) => round(convert("flow", flowUnit, "m3/h", x), 4)!;
+  return [at(ps[0].x), at(ps[ps.length - 1].x)];
+}
 
 /** The CSV rows (header first) for the traced sets; a set without a head curve of 3+ points is left out. */
 export function tracedRows(sets: readonly TracedSet[], units: TraceUnits, points = 15): unknown[][] {
