@@ -180,6 +180,11 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           your session cookie (<strong>403</strong>; token calls send no cookie) and a body over its limit (
           <strong>413</strong>).
         </p>
+        <p className="text-sm text-slate-700">
+          A read (<code>GET</code>) takes only the query parameters listed for it, each once (<code>method</code> of the
+          systems search any number of times): any other, or one given twice, is a <strong>400</strong> naming it, never
+          silently ignored — answers are always in SI units, so <code>?units=us</code> is refused rather than answered in SI.
+        </p>
         <Code>{ERROR_EXAMPLE}</Code>
       </section>
 

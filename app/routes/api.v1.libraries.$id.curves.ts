@@ -4,6 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { libraryCurvesPage } from "~/lib/libraries";
 import { forbidden, notFound, badRequest, refuseMethod } from "~/lib/shared/problem.server";
+import { queryProblem } from "~/lib/shared/api-errors.server";
 import { IdField, QueryId, readQuery } from "~/lib/shared/forms.server";
 import { pageLinks } from "~/lib/shared/paging";
 
@@ -19,6 +20,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("Library id must be a number.");
   const url = new URL(request.url);
+  const odd = queryProblem(url, { one: ["revision", "page"] });
+  if (odd) return odd;
   const revParam = readQuery(url, "revision", 40);
   const rev = revParam ? v.safeParse(IdField, revParam) : null;
   if (rev && !rev.success) return badRequest("revision must be a number.");

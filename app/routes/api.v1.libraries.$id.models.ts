@@ -3,7 +3,7 @@ import type { Route } from "./+types/api.v1.libraries.$id.models";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { listModels, MODEL_PAGE_ROWS } from "~/lib/libraries";
-import { answerById } from "~/lib/shared/api-errors.server";
+import { answerById, queryProblem } from "~/lib/shared/api-errors.server";
 import { refuseMethod } from "~/lib/shared/problem.server";
 import { QueryId, readQuery } from "~/lib/shared/forms.server";
 import { pageLinks, pageOf } from "~/lib/shared/paging";
@@ -16,6 +16,8 @@ const ModelsQuery = v.object({ page: QueryId });
 export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await requireApi(request, "library.read");
   const url = new URL(request.url);
+  const odd = queryProblem(url, { one: ["page"] });
+  if (odd) return odd;
   const { page } = readQuery(url, ModelsQuery);
   return answerById(params.id, "Library", async (id) => {
     const all = await listModels(viewerOfApi(c), id);

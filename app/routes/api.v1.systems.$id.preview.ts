@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemWorkbench } from "~/lib/projects";
 import { SystemInputSchema } from "~/lib/projects/hydraulics";
-import { badRequest, methodNotAllowed, notFound, refuseMethod } from "~/lib/shared/problem.server";
+import { badRequest, methodNotAllowed, notFound, notJsonBody, refuseMethod } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
@@ -16,6 +16,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const c = await requireApi(request, "project.read");
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("System id must be a number.");
+  const notJson = notJsonBody(request);
+  if (notJson) return notJson;
   let body: unknown;
   try {
     body = await request.json();

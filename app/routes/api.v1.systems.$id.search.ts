@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { renderDeep } from "~/lib/shared/units";
 import { badRequest, refuseMethod } from "~/lib/shared/problem.server";
-import { asProblem } from "~/lib/shared/api-errors.server";
+import { asProblem, queryProblem } from "~/lib/shared/api-errors.server";
 import { IdField, QueryId, readQuery } from "~/lib/shared/forms.server";
 import { pageLinks } from "~/lib/shared/paging";
 import { systemSearchView } from "~/lib/projects";
@@ -22,6 +22,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = v.safeParse(IdField, params.id);
   if (!id.success) return badRequest("System id must be a number.");
   const url = new URL(request.url);
+  const odd = queryProblem(url, { one: ["page"], many: ["method"] });
+  if (odd) return odd;
   const { method: methods, page } = readQuery(url, SearchQuery, { many: ["method"] });
   const bad = methods.find((m) => !(METHODS as readonly string[]).includes(m));
   if (bad !== undefined) return badRequest(`Unknown method "${bad.slice(0, 40)}": use direct, trim or speed.`);

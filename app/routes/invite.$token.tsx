@@ -12,7 +12,8 @@ export const meta: Route.MetaFunction = () => [{ title: "Invitation · Dutymark"
 export async function loader({ request, params }: Route.LoaderArgs) {
   const found = await findInvitation(params.token);
   const auth = await getAuth(request);
-  if (!found) return { valid: false as const, signedIn: Boolean(auth) };
+  // No usable invitation has this token: the page says so, with 404 (a link to nothing, not a page that worked).
+  if (!found) return data({ valid: false as const, signedIn: Boolean(auth) }, { status: 404 });
   return {
     valid: true as const,
     signedIn: Boolean(auth),
@@ -31,8 +32,12 @@ export async function action({ request, params }: Route.ActionArgs) {
     // Only of an invitation that could still be used, whose address the page shows to whoever holds the link.
     return data({ error: `This invitation is for ${res.email}, and you are signed in as ${auth.user.email}. Sign in as ${res.email} to accept it.` }, { status: 403 });
   }
-  return { error: "This invitation has expired, was withdrawn, or was already used." };
+  return data({ error: "This invitation has expired, was withdrawn, or was already used." }, { status: 404 });
 }
+
+// Accept answered 404 (the invitation was withdrawn, used or expired meanwhile): the page is read again, so it shows
+// the "expired, withdrawn or used" card instead of an Accept button (React Router reads no loader after a 4xx by default).
+export const shouldRevalidate = () => true;
 
 export default function Invite({ params }: Route.ComponentProps) {
   const d = useLoaderData<typeof loader>();

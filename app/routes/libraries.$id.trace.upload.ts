@@ -3,13 +3,17 @@ import type { Route } from "./+types/libraries.$id.trace.upload";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, readFormSafe } from "~/lib/shared/forms.server";
-import { UploadRejected } from "~/lib/libraries";
+import { getLibrary, UploadRejected } from "~/lib/libraries";
 import { storePicture } from "~/lib/tracer/pictures.server";
 
 // POST /libraries/:id/trace/upload (multipart, field "file"): stores a datasheet picture and opens it
 // in the tracer. The path ends in /upload, so the uploads' body limit applies (app/root.tsx, serve.mjs).
-export async function loader({ params }: Route.LoaderArgs) {
-  throw redirect(`/libraries/${readId(params.id)}/trace`);
+export async function loader({ request, params }: Route.LoaderArgs) {
+  // A GET here (a reload after posting) goes back to the tracer — only of a library this workspace may see: 404 else, as there.
+  const m = await requireMember(request, "library.read");
+  const id = readId(params.id);
+  await getLibrary(viewerOf(m), id);
+  throw redirect(`/libraries/${id}/trace`);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {

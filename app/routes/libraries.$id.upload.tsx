@@ -2,13 +2,17 @@ import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.upload";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
-import { storeUpload, UploadRejected } from "~/lib/libraries";
+import { getLibrary, storeUpload, UploadRejected } from "~/lib/libraries";
 import { readId, readFormSafe } from "~/lib/shared/forms.server";
 
 // POST /libraries/:id/upload (multipart, field "file"). A browser form gets a redirect to the
 // mapping step; the drop zone (Accept: application/json) gets { location } or { error }.
-export async function loader({ params }: Route.LoaderArgs) {
-  throw redirect(`/libraries/${readId(params.id)}`);
+export async function loader({ request, params }: Route.LoaderArgs) {
+  // A GET here (a reload after posting) goes back to the library's page — only a library this workspace may see: 404 else, as there.
+  const m = await requireMember(request, "library.read");
+  const id = readId(params.id);
+  await getLibrary(viewerOf(m), id);
+  throw redirect(`/libraries/${id}`);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {

@@ -62,12 +62,12 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (id === null) return { error: "No cell was changed; nothing was saved." };
       throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
     } catch (e) {
-      if (e instanceof UploadRejected) return { error: e.message };
+      if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 });
       throw e;
     }
   }
   const { mapping, error } = mappingFromForm(form);
-  if (!mapping) return { error };
+  if (!mapping) return data({ error }, { status: 400 }); // the form's mapping fields are missing or malformed
   if (form.get("intent") === "import") {
     try {
       const { lib, uploadId, plan } = await prepareImport(c.viewer, c.libraryId, c.uploadId, mapping);
@@ -77,7 +77,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       const r = await runImport(args);
       throw redirect(`/libraries/${c.libraryId}?imported=${r.number}`);
     } catch (e) {
-      if (e instanceof UploadRejected) return { error: e.message, ...(await analysis(c, mapping)) };
+      if (e instanceof UploadRejected) return data({ error: e.message, ...(await analysis(c, mapping)) }, { status: 422 });
       throw e;
     }
   }

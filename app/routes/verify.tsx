@@ -14,9 +14,9 @@ export const meta: Route.MetaFunction = () => [{ title: "Confirm your address ·
 // Someone signed in as another account stays signed in as it (confirmAddressLink: no login CSRF) and is told so.
 export async function action({ request }: Route.ActionArgs) {
   const r = await readForm(request, v.object({ token: v.pipe(v.string(), v.maxLength(200)), next: v.optional(v.pipe(v.string(), v.maxLength(2000))) }));
-  if (!r.ok) return { ok: false as const };
+  if (!r.ok) return data({ ok: false as const }, { status: 400 }); // a token or next past their lengths: no link of ours
   const res = await confirmAddressLink(r.value.token, request);
-  if (res.kind === "unusable") return { ok: false as const };
+  if (res.kind === "unusable") return data({ ok: false as const }, { status: 404 }); // no usable link has this token
   const next = safeNext(r.value.next, "");
   if (res.kind === "other-account") return { ok: true as const, signedInAs: res.signedInAs, confirmed: res.confirmed, next };
   const headers = res.kind === "signed-in" ? { "Set-Cookie": res.cookie } : undefined;

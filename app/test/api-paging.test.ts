@@ -87,7 +87,8 @@ describe(`GET /api/v1/libraries/:id/curves, ${CURVE_PAGE_SETS} curve sets a page
     }
     const last = Math.ceil(SETS / CURVE_PAGE_SETS);
     for (const q of [String(last + 1), "1000000000", "9".repeat(15)]) expect((await curves(`?page=${q}`)).paging.page, q).toBe(last);
-    expect((await curves("?x=1&page=2")).links.next).toMatch(/^\/api\/v1\/libraries\/\d+\/curves\?x=1&page=3&revision=\d+$/); // the rest of the query kept
+    const rev = (await curves("?page=2")).revision;
+    expect((await curves(`?revision=${rev}&page=2`)).links.next).toBe(`${curvesPath()}?revision=${rev}&page=3`); // the rest of the query kept
   });
 
   test("links keep the revision answered: a new import between two pages does not mix revisions; the new one is answered without it", async () => {

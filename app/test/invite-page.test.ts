@@ -74,7 +74,7 @@ describe("signed in as another address than the invitation's", () => {
     const [inv] = await db().select().from(invitations).where(eq(invitations.workspaceId, admin.workspaceId));
     await revokeInvitation(admin.workspaceId, inv.id);
     const r = await call(inviteRoute.action as never, { path: `/invite/${token}`, cookie: other.cookie, form: {}, params: { token } });
-    expect(r.status).toBe(200); // as before: the page reloads to the "expired, withdrawn or used" card
+    expect(r.status).toBe(404); // no usable invitation has this token (was 200); the page reloads to the "expired, withdrawn or used" card (shouldRevalidate)
     expect(JSON.stringify(r.body)).not.toContain(invited.email);
     expect((r.body as { error: string }).error).toBe("This invitation has expired, was withdrawn, or was already used.");
     expect(await renderInvite(token, other.cookie)).not.toContain(invited.email);

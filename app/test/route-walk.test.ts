@@ -3,7 +3,7 @@
 // multipart and JSON bodies — anonymous, signed in (admin) and with an API token. No answer may be a
 // 5xx or an uncaught error. Real route modules, real guards, real MariaDB (app/test/harness.ts).
 //
-// A route in app/routes.ts whose path parameters have no good value in GOOD_PARAMS below fails the
+// A route in app/routes.ts whose path parameters have no good value in GOOD_PARAMS (route-table.ts) fails the
 // first test, so a new route cannot be added without being walked. The last two tests walk every route
 // with the methods no form sends (PUT, PATCH, DELETE) through the root middleware: 405 with Allow, no
 // action run, and the answer in the shape of its side (problem+json with type, title, status and detail
@@ -12,66 +12,14 @@
 // The same refusals as app/serve.mjs gives them on the wire: app/test/server-before-router.test.ts.
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, expect, test } from "vitest";
-import { eq } from "drizzle-orm";
-import { closeDb, db, getPool } from "@db/client.server";
-import { fieldCheckPhotos, libraries } from "@db/schema";
-import routeConfig from "~/routes";
-import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { invite } from "~/lib/workspaces";
-import { createLibrary, curvesOfRevisions } from "~/lib/libraries";
-import { importCsvText } from "~/lib/projects/test-kit";
-import { addCandidate, createProject, createSystem, selectCandidate } from "~/lib/projects";
-import { DEFAULT_ADJUSTMENT, defaultSystemInput } from "~/lib/projects/hydraulics";
-import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { closeDb, getPool } from "@db/client.server";
 import { shareProject } from "~/lib/projects";
-import { parseCheckFields } from "~/lib/fieldchecks";
-import { fieldsForHead } from "./fieldcheck-fixture";
-import { storePicture } from "~/lib/tracer/pictures.server";
-import { chartPdf } from "~/lib/tracer/test-chart";
-import { middleware } from "~/root";
 import { allowedMethods, listedPatterns } from "~/lib/shared/methods";
-import { BASE, call, makeMember, type TestMember } from "./harness";
+import { BASE, call, makeMember } from "./harness";
+import { asResponse, GOOD_PARAMS, isApi, load, paramsOf, pathFor, ROUTES, throughRoot, walkRecords, type WalkRecords } from "./route-table";
 
-type Entry = { id?: string; path?: string; file: string; index?: boolean; children?: Entry[] };
-type Mod = { loader?: unknown; action?: unknown; default?: unknown };
-const modules = import.meta.glob<Mod>("../routes/*.{ts,tsx}");
-
-function flatten(entries: Entry[], parent = ""): { id: string; path: string; file: string }[] {
-  return entries.flatMap((e) => {
-    const path = e.index ? parent : [parent, e.path ?? ""].filter(Boolean).join("/");
-    const here = { id: e.id ?? e.file.replace(/\.(tsx?|jsx?)$/, ""), path, file: e.file };
-    return [here, ...flatten(e.children ?? [], path)];
-  });
-}
-const ROUTES = flatten(routeConfig as Entry[]);
-const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]).concat(path.endsWith("*") ? ["*"] : []);
-
-type Ctx = { m: TestMember; token: string; lib: number; upload: number; picture: number; project: number; system: number; selection: number; check: number; photo: number; invite: string };
+type Ctx = WalkRecords;
 let ctx: Ctx;
-
-/** Routes whose one path parameter is `:id`, by the record of the context it names. */
-const ID_ROUTES: [record: "lib" | "project" | "system" | "selection" | "check", paths: string[]][] = [
-  ["lib", ["libraries/:id", "libraries/:id/upload", "libraries/:id/export.csv", "libraries/:id/export.json", "libraries/:id/trace", "libraries/:id/trace/upload"]],
-  ["lib", ["api/v1/libraries/:id/curves", "api/v1/libraries/:id/models", "api/v1/libraries/:id/upload"]],
-  ["project", ["projects/:id", "projects/:id/share"]],
-  ["system", ["systems/:id", "systems/:id/search", "api/v1/systems/:id/preview", "api/v1/systems/:id", "api/v1/systems/:id/search"]],
-  ["selection", ["selections/:id", "selections/:id/export.csv", "selections/:id/export.json"]],
-  ["selection", ["field/selections/:id", "field/selections/:id/photos", "field/selections/:id/export.csv", "field/selections/:id/checks"]],
-  ["check", ["field/checks/:id"]],
-];
-
-/** Good values for every path parameter of every route (so bodies and queries reach past the id lookup). */
-const GOOD_PARAMS: Record<string, (c: Ctx) => Record<string, string>> = {
-  ...Object.fromEntries(ID_ROUTES.flatMap(([record, paths]) => paths.map((path) => [path, (c: Ctx) => ({ id: String(c[record]) })]))),
-  "libraries/:id/uploads/:uploadId": (c) => ({ id: String(c.lib), uploadId: String(c.upload) }),
-  "libraries/:id/trace/:pictureId": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
-  "libraries/:id/trace/:pictureId/file": (c) => ({ id: String(c.lib), pictureId: String(c.picture) }),
-  "field/checks/:id/photos/:photoId": (c) => ({ id: String(c.check), photoId: String(c.photo) }),
-  "invite/:token": (c) => ({ token: c.invite }),
-  "api/v1/models/:id": () => ({ id: "1" }),
-  "api/*": () => ({ "*": "nothing/here" }),
-  "*": () => ({ "*": "nothing/here" }),
-};
 
 const BAD_IDS = ["abc", "-1", "1.5", "1e3", "\u0000", "%00", "99999999999999999999", "0x10", " 1", "", "1/2", "9".repeat(16), "0"];
 const BAD_VALUES = ["%0a", "\n", "\u0000", "-1", "1e309", "NaN", "Infinity", "abc", "1.5", "//evil.example", "/\t/evil.example", "x".repeat(5000), "%zz", "9".repeat(25), "/%0a", "/%0d%0aSet-Cookie:%20x=1", "/\\evil.example", "/ x"];
@@ -101,30 +49,10 @@ const BODIES: { name: string; headers: Record<string, string>; body: () => BodyI
 
 beforeAll(async () => {
   process.env.STRIPE_WEBHOOK_SECRET ||= "whsec_route_walk"; // configured as in production: bad bodies are a 400, not "not set up"
-  const m = await makeMember("admin");
-  const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
-  const lib = await createLibrary(viewer, { name: `Walk ${Date.now()}`, description: "" });
-  const csv = readFileSync("fixtures/csv/long-si.csv", "utf8");
-  const upload = await importCsvText(viewer, lib, csv, "w.csv");
-  const project = await createProject(viewer, { name: "Walk project", site: "", description: "" });
-  const system = await createSystem(viewer, project, "Walk system", { ...defaultSystemInput(), duty: { flow: 20 / 3600, head: 25 } });
-  const [rev] = await db().select({ id: libraries.currentRevisionId }).from(libraries).where(eq(libraries.id, lib));
-  const sets = await curvesOfRevisions([rev.id!]);
-  const added = await addCandidate(viewer, system, sets[0].id, DEFAULT_ADJUSTMENT);
-  if (!added.ok) throw new Error(added.reason);
-  const selection = await selectCandidate(viewer, added.id, "Walk selection", "");
-  const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0]);
-  const parsed = parseCheckFields(fieldsForHead(25, 998.2, { flow: String(20 / 3600) }), { kind: "water" });
-  if (!parsed.ok) throw new Error(JSON.stringify(parsed.errors));
-  const rd = parsed.readings;
-  const rec = await recordFieldCheck(viewer, selection, { readings: rd, fields: {}, notes: "", gradeId: "2B" }, [{ filename: "g.png", contentType: "image/png", bytes: Buffer.from(png) }], { notify: false });
-  const [photo] = await db().select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, rec.id));
+  ctx = await walkRecords(await makeMember("admin"));
   const other = await makeMember("admin");
-  await shareProject(viewer, project, String(other.workspaceId)).catch(() => null);
-  const inv = await invite({ workspaceId: m.workspaceId, workspaceName: "W", inviterId: m.userId, inviterName: "W", email: `walk-${Date.now()}@example.test`, role: "viewer" });
-  const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "walk", scope: "write" });
-  const picture = await storePicture(viewer, lib, new File([chartPdf()], "walk.pdf", { type: "application/pdf" }));
-  ctx = { m, token, lib, upload, picture, project, system, selection, check: rec.id, photo: photo.id, invite: inv };
+  const viewer = { userId: ctx.m.userId, workspace: { id: ctx.m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
+  await shareProject(viewer, ctx.project, String(other.workspaceId)).catch(() => null);
 }, 60_000);
 afterAll(() => closeDb());
 
@@ -135,10 +63,6 @@ const AS = (c: Ctx) => [
   { who: "token", headers: { authorization: `Bearer ${c.token}` }, cookie: undefined },
 ];
 
-function pathFor(route: string, params: Record<string, string>): string {
-  return "/" + route.replace(/:(\w+)/g, (_, k) => encodeURIComponent(params[k] ?? "")).replace(/\*$/, params["*"] ?? "");
-}
-
 async function probe(fails: Failure[], label: string, fn: unknown, opts: Parameters<typeof call>[1]) {
   try {
     const r = await call(fn as never, opts);
@@ -146,13 +70,6 @@ async function probe(fails: Failure[], label: string, fn: unknown, opts: Paramet
   } catch (e) {
     fails.push(`${label} → threw ${(e as Error)?.stack?.split("\n").slice(0, 3).join(" | ") ?? String(e)}`);
   }
-}
-
-async function load(file: string): Promise<Mod> {
-  const key = `../${file}`;
-  const loader = modules[key];
-  if (!loader) throw new Error(`route module ${file} not found by the walk`);
-  return loader();
 }
 
 test("every route in app/routes.ts has good parameter values here (a new route must be added to the walk)", () => {
@@ -227,27 +144,6 @@ test("malformed urlencoded, multipart and JSON bodies on every action: no 5xx", 
   expect(fails).toEqual([]);
 }, 300_000);
 
-type Mw = (args: unknown, next: () => Promise<Response>) => Promise<Response | void>;
-
-/** Every root middleware in order, as React Router runs them, around `next` (the route's action here). */
-async function throughRoot(request: Request, pattern: string, params: Record<string, string>, next: () => Promise<Response>): Promise<Response> {
-  const chain = (middleware as unknown as Mw[]).reduceRight<() => Promise<Response>>((n, mw) => async () => (await mw({ request, params, pattern, context: {} }, n)) as Response, next);
-  try {
-    return await chain();
-  } catch (thrown) {
-    return asResponse(thrown);
-  }
-}
-
-/** What a loader or action gave back or threw, as the Response React Router would make of it. */
-function asResponse(out: unknown): Response {
-  if (out instanceof Response) return out;
-  const d = out as { type?: string; init?: ResponseInit | null };
-  if (d?.type === "DataWithResponseInit") return new Response(null, d.init ?? {});
-  if (out instanceof Error) return new Response(String(out), { status: 500 });
-  return new Response(JSON.stringify(out ?? null), { status: 200 });
-}
-
 /** Every table's checksum (MariaDB CHECKSUM TABLE): any row written, changed or removed changes it. */
 async function checksums(): Promise<Record<string, string>> {
   const pool = getPool();
@@ -255,8 +151,6 @@ async function checksums(): Promise<Record<string, string>> {
   const rows = (await pool.query(`CHECKSUM TABLE ${tables.map((t) => `\`${t.name}\``).join(", ")}`)) as { Table: string; Checksum: unknown }[];
   return Object.fromEntries(rows.map((r) => [r.Table, String(r.Checksum)]));
 }
-
-const isApi = (path: string) => path.startsWith("api/");
 
 /**
  * What is wrong with a refusal's shape (null: nothing). Under /api/: RFC 9457 problem+json with type, title, status (the

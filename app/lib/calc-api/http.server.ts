@@ -2,7 +2,7 @@
 // per-address rate limit, content type, body size, JSON, then the calculation.
 import { clientIp } from "../auth/session.server";
 import { requireApi } from "../auth/guards.server";
-import { problem, refuseMethod } from "../shared/problem.server";
+import { notJsonBody, problem, refuseMethod } from "../shared/problem.server";
 import { hitRateLimit } from "../shared/ratelimit.server";
 import { runCalc } from "./calculations";
 import { ANON_RATE_LIMIT, BODY_FIELD, CALC_LIMITS, MAX_ERRORS, type CalcEndpoint, type CalcOutcome, type FieldError } from "./schemas";
@@ -69,11 +69,6 @@ async function readJson(request: Request, limit: number, headers: Headers): Prom
   }
 }
 
-function isJsonContentType(value: string | null): boolean {
-  if (!value) return false;
-  const mediaType = value.split(";")[0].trim().toLowerCase();
-  return mediaType === "application/json";
-}
 
 /**
  * The whole POST handling of one calc endpoint. A Bearer token is checked (invalid → 401, never
@@ -119,18 +114,8 @@ export async function calcAction(request: Request, endpoint: CalcEndpoint, opts:
       );
     }
   }
-  if (!isJsonContentType(request.headers.get("content-type"))) {
-    const got = request.headers.get("content-type");
-    return problem(
-      {
-        title: "Unsupported Media Type",
-        status: 415,
-        detail: `Send the body as JSON with Content-Type: application/json (got ${got ? got : "no Content-Type"}).`,
-        errors: [{ field: BODY_FIELD, message: "Content-Type must be application/json" }],
-      },
-      new Headers([...headers, ["Accept-Post", "application/json"]]),
-    );
-  }
+  const notJson = notJsonBody(request, [{ field: BODY_FIELD, message: "Content-Type must be application/json" }], headers);
+  if (notJson) return notJson;
   const body = await readJson(request, CALC_LIMITS.bodyBytes, headers);
   if (!body.ok) return body.response;
   let out: CalcOutcome<unknown>;

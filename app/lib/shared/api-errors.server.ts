@@ -36,3 +36,27 @@ export async function answerById(raw: string | undefined, what: string, answer: 
     return asProblem(e, units);
   }
 }
+
+/**
+ * An API read's query string against the parameters it takes (`one`: at most once each; `many`: any number of times):
+ * a 400 problem naming the first parameter it does not take, or a single-valued one given more than once; else null.
+ * Ignored, they would be answered as if not asked: `?units=us` in SI, `?Page=2` with the first page, `?page=1&page=3`
+ * with one of them. Keys are matched as written (case matters).
+ */
+export function queryProblem(url: URL | string, takes: { one?: readonly string[]; many?: readonly string[] } = {}): Response | null {
+  const u = typeof url === "string" ? new URL(url) : url;
+  const one = takes.one ?? [];
+  const many = takes.many ?? [];
+  const all = [...one, ...many];
+  const seen = new Set<string>();
+  for (const key of u.searchParams.keys()) {
+    const name = JSON.stringify(key.slice(0, 40));
+    if (!all.includes(key)) {
+      const what = all.length ? `this address takes ${all.join(", ")}` : "this address takes no query parameters";
+      return badRequest(`Unknown query parameter ${name}: ${what}. Answers are in SI units (see /api).`);
+    }
+    if (one.includes(key) && seen.has(key)) return badRequest(`The query parameter ${name} is given more than once: give it once.`);
+    seen.add(key);
+  }
+  return null;
+}

@@ -63,13 +63,42 @@ export const QueryFlag = v.fallback(v.pipe(v.optional(v.string(), ""), v.transfo
 /** A positive id, else null. */
 export const QueryId = v.fallback(v.pipe(v.optional(v.string(), ""), v.transform((x) => parseId(x)), v.transform((x) => (x ? x : null))), null);
 
-/** The request body as FormData (urlencoded or multipart); a malformed body is a 400, never a 500. */
+/**
+ * The request body as FormData (urlencoded or multipart); a malformed body is a 400, never a 500. An urlencoded body is
+ * read strictly: bytes or percent escapes that are not UTF-8, or a broken escape ("%zz"), are a 400 — the lenient reading
+ * (`request.formData()`) would store U+FFFD in their place, a name nobody typed (browsers always send valid UTF-8).
+ */
 export async function readFormSafe(request: Request): Promise<FormData> {
+  const type = (request.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type === "application/x-www-form-urlencoded") return readUrlencoded(request);
   try {
     return await request.formData();
   } catch {
     throw data({ errors: { _form: "The form could not be read." } }, { status: 400 });
   }
+}
+
+const NOT_UTF8 = "The form is not valid UTF-8 (a byte or percent escape that is not UTF-8, or a broken escape): send it again from the page.";
+
+async function readUrlencoded(request: Request): Promise<FormData> {
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(await request.arrayBuffer());
+  } catch {
+    throw data({ errors: { _form: NOT_UTF8 } }, { status: 400 });
+  }
+  const form = new FormData();
+  const decode = (x: string) => decodeURIComponent(x.replaceAll("+", " ")); // throws URIError on "%zz" and on escapes that are not UTF-8
+  for (const pair of text.split("&")) {
+    if (!pair) continue;
+    const at = pair.indexOf("=");
+    try {
+      form.append(decode(at < 0 ? pair : pair.slice(0, at)), decode(at < 0 ? "" : pair.slice(at + 1)));
+    } catch {
+      throw data({ errors: { _form: NOT_UTF8 } }, { status: 400 });
+    }
+  }
+  return form;
 }
 
 /** The request body as JSON; a malformed body is a 400. */

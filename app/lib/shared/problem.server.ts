@@ -42,3 +42,19 @@ export function refuseMethod(allow: string | readonly string[], detail?: string 
   const refuse = (args?: { request?: Request }) => methodNotAllowed(list, typeof detail === "function" ? detail(args?.request?.method ?? "") : detail);
   return Object.assign(refuse, { allow: list });
 }
+
+/** Whether a Content-Type names JSON (`application/json`, parameters such as charset aside). */
+export function isJsonContentType(value: string | null): boolean {
+  return !!value && value.split(";")[0].trim().toLowerCase() === "application/json";
+}
+
+/**
+ * A JSON API's refusal of a body that is not declared JSON: 415 problem+json with `Accept-Post: application/json`
+ * (RFC 9110 §15.5.16), else null. `headers` join it (the calculators' rate-limit headers).
+ */
+export function notJsonBody(request: Request, errors?: unknown[], headers?: HeadersInit): Response | null {
+  const got = request.headers.get("content-type");
+  if (isJsonContentType(got)) return null;
+  const detail = `Send the body as JSON with Content-Type: application/json (got ${got ? got : "no Content-Type"}).`;
+  return problem({ title: "Unsupported Media Type", status: 415, detail, ...(errors ? { errors } : {}) }, new Headers([...new Headers(headers), ["Accept-Post", "application/json"]]));
+}

@@ -1,0 +1,78 @@
+// The strict readers of request input: an urlencoded form read as the WHATWG urlencoded parser reads it but refused
+// when it is not UTF-8 (readFormSafe), and an API read's query string against the parameters it takes (queryProblem).
+// Check values: the URL Standard's application/x-www-form-urlencoded parsing ("+" is a space, a pair without "=" has
+// an empty value), RFC 3629 (C3 28 and FF are not UTF-8), RFC 9457 (problem+json) — the standards named.
+import { describe, expect, test } from "vitest";
+import { readFormSafe } from "./forms.server";
+import { queryProblem } from "./api-errors.server";
+
+const post = (body: string, type = "application/x-www-form-urlencoded") => new Request("http://x.test/", { method: "POST", headers: { "content-type": type }, body });
+const refusal = async (p: Promise<unknown>) => {
+  try {
+    await p;
+    return null;
+  } catch (e) {
+    const d = e as { init?: { status?: number }; data?: { errors?: { _form?: string } } };
+    return { status: d.init?.status, message: d.data?.errors?._form };
+  }
+};
+
+describe("readFormSafe, urlencoded", () => {
+  test("reads as the URL Standard's parser does: escapes, + as a space, repeats kept in order, a key without =", async () => {
+    const f = await readFormSafe(post("name=Caf%C3%A9+No%2B1&a=1&a=2&flag&empty=&=x&%E2%82%AC=%E2%82%AC"));
+    expect(f.get("name")).toBe("Café No+1");
+    expect(f.getAll("a")).toEqual(["1", "2"]);
+    expect(f.get("flag")).toBe("");
+    expect(f.get("empty")).toBe("");
+    expect(f.get("")).toBe("x");
+    expect(f.get("€")).toBe("€");
+    expect([...f.keys()]).toEqual([...new URLSearchParams("name=Caf%C3%A9+No%2B1&a=1&a=2&flag&empty=&=x&%E2%82%AC=%E2%82%AC").keys()]);
+  });
+  test("a typed U+FFFD, sent as its UTF-8 (EF BF BD), is kept", async () => {
+    expect((await readFormSafe(post("name=%EF%BF%BD"))).get("name")).toBe("\uFFFD");
+  });
+  for (const [what, body] of [
+    ["a percent escape of a byte that is not UTF-8 (FF)", "name=%FF"],
+    ["an escaped sequence that is not UTF-8 (C3 28)", "name=%C3%28"],
+    ["a truncated sequence (E2 82)", "name=%E2%82"],
+    ["an escape in a key", "%FF=1"],
+    ["a broken escape", "name=%zz"],
+  ] as const) {
+    test(`${what}: 400 with the rule, not U+FFFD in its place`, async () => {
+      const r = await refusal(readFormSafe(post(body)));
+      expect(r?.status).toBe(400);
+      expect(r?.message).toMatch(/not valid UTF-8/);
+    });
+  }
+  test("raw bytes that are not UTF-8: 400", async () => {
+    const req = new Request("http://x.test/", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded; charset=utf-8" }, body: new Uint8Array([0x6e, 0x3d, 0xff, 0xfe]) });
+    expect((await refusal(readFormSafe(req)))?.status).toBe(400);
+  });
+  test("multipart is read as before", async () => {
+    const fd = new FormData();
+    fd.append("name", "Café");
+    const f = await readFormSafe(new Request("http://x.test/", { method: "POST", body: fd }));
+    expect(f.get("name")).toBe("Café");
+  });
+});
+
+describe("queryProblem", () => {
+  const detail = async (r: Response | null) => (r ? { status: r.status, type: r.headers.get("content-type"), detail: ((await r.json()) as { detail: string }).detail } : null);
+  test("the parameters a read takes pass, a many-valued one any number of times", async () => {
+    expect(queryProblem("http://x.test/a?page=2&revision=3", { one: ["page", "revision"] })).toBeNull();
+    expect(queryProblem("http://x.test/a?method=direct&method=trim&page=1", { one: ["page"], many: ["method"] })).toBeNull();
+    expect(queryProblem("http://x.test/a")).toBeNull();
+  });
+  test("a parameter it does not take: 400 problem+json naming it and what it takes", async () => {
+    expect(await detail(queryProblem("http://x.test/a?units=us", { one: ["page"] }))).toEqual({
+      status: 400,
+      type: "application/problem+json",
+      detail: 'Unknown query parameter "units": this address takes page. Answers are in SI units (see /api).',
+    });
+    expect((await detail(queryProblem("http://x.test/a?x=1")))?.detail).toBe('Unknown query parameter "x": this address takes no query parameters. Answers are in SI units (see /api).');
+    expect((await detail(queryProblem("http://x.test/a?Page=1", { one: ["page"] })))?.status).toBe(400); // keys as written
+  });
+  test("a single-valued parameter twice: 400, even with the same value", async () => {
+    expect((await detail(queryProblem("http://x.test/a?page=1&page=1", { one: ["page"] })))?.detail).toBe('The query parameter "page" is given more than once: give it once.');
+  });
+});
