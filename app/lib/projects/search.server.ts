@@ -216,8 +216,6 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
   const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
-  // No revision open (no library, or none with curves imported): say so, not "no pump meets this duty".
-  if (!open.length) return { system, results: [], locked, ...none, message: `No pump curves are open to you to search: ${locked.length ? "the shared libraries listed below are not open on your plan; import" : "import"} a pump library (or ask for one to be shared) first.` };
   let work: SystemWork;
   try {
     work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson, system.input);
@@ -226,6 +224,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     // user's to fix, not a server fault: the page says why.
     return { system, results: [], locked, ...none, message: `This system cannot be evaluated: ${e instanceof Error ? e.message : String(e)}` };
   }
+  // A system that cannot be evaluated says so first (above). No revision open (no library, or none with curves imported): say so, not "no pump meets this duty".
+  if (!open.length) return { system, results: [], locked, ...none, message: `No pump curves are open to you to search: ${locked.length ? "the shared libraries listed below are not open on your plan; import" : "import"} a pump library (or ask for one to be shared) first.` };
   const { evaluation, verdicts } = work;
   const prepared = opts.uncached ? await buildPreparedSearch(open, filters) : await preparedSearch(open, filters);
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
