@@ -64,7 +64,7 @@ describe.each(["parallel", "series"] as const)("2 pumps in %s: every power figur
     expect(motor).toContain("Suggested per pump (each pump has its own motor)");
     const band = figureCell(pages.html, "Shaft power over the band");
     expect(band).toMatch(/ per pump, .* for 2 duty pumps$/);
-    expect(figureCell(pages.html, "Energy per year at the operating point (electrical, every running hour there)")).toMatch(/ kWh for 2 duty pumps$/);
+    expect(figureCell(pages.html, "Energy per year at the operating point (electrical, every running hour there)")).toMatch(/ kWh for 2 duty pumps \(at the operating point × \d+ h\/yr\)$/);
   });
 
   test("the printed energy line says it is for the 2 duty pumps", () => {
