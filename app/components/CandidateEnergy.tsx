@@ -40,8 +40,7 @@ export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis 
   if (e.cycle.totalHours === 0) return "— (no operating hours given)";
   const none = noStepCounted(e.cycle);
   if (none) return `not computed (${none})`;
-  const cols = cycleColumns(e.cycle);
-  return `${cols.energy.total} kWh${basis ? ` ${basis.forAll}` : ""} (duty cycle, ${amountText(e.cycle.totalHours)} h/yr)${incompleteMark(e.cycle)}`;
+  return `${cycleColumns(e.cycle).energy.total} kWh${basis ? ` ${basis.forAll}` : ""}${incompleteMark(e.cycle)}`;
 }
 
 /** The life-cycle cost's plausibility warnings (engine lifeCycleCost.ts; none in selections frozen before them). */
@@ -59,9 +58,15 @@ export function lccText(e: Energy | null | undefined, currency: string): string 
   return e?.costMissing ? `— (${e.costMissing})` : "—";
 }
 
-/** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
-export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
-  ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy, cycleBasis(c))],
+/** ", 1000 h/yr": the hours a duty cycle's energy and cost count (the profile's, the same for every candidate); "" without a cycle or hours. */
+export const cycleHoursText = (cycles: readonly (Energy["cycle"] | undefined)[]): string => {
+  const h = cycles.find((x) => x != null)?.totalHours;
+  return h != null && h > 0 ? `, ${amountText(h)} h/yr` : "";
+};
+
+/** Rows for the candidates table: cycle energy (its hours in the label), purchase price, life-cycle cost. */
+export const energyRows = (currency: string, hours = ""): [string, (c: Cand) => React.ReactNode][] => [
+  [`Energy per year over the duty cycle${hours}`, (c) => cycleEnergyText(c.energy, cycleBasis(c))],
   // As entered for the candidate as offered: with several pumps, the price of all of them (standby included).
   ["Purchase price", (c) => `${moneyText(c.energy?.purchasePrice, currency)}${c.energy?.purchasePrice != null && cycleBasis(c) ? ` for all ${cycleBasis(c)!.arrangement}` : ""}`],
   ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],

@@ -7,7 +7,7 @@ import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, type UnitChoice } from "
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
-import { energyRows } from "~/components/CandidateEnergy";
+import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
 import { adjustmentText, npshNoteOf, VerdictView } from "./workbench";
 import { perPumpPowerText, totalPowerText } from "./power-text";
@@ -44,10 +44,10 @@ function overloadText(f: NonNullable<NonNullable<Cand["result"]>["figures"]>): s
   return f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload");
 }
 
-/** " (at the operating point × 8000 h/yr)": the hours the operating point's energy and cost count ("" in selections frozen before they were kept). */
-const opHours = (c: Cand) => {
-  const h = c.result?.figures?.motor?.hoursPerYear;
-  return h != null ? ` (at the operating point × ${amountText(h)} h/yr)` : "";
+/** " × 8000 h/yr": the hours the operating point's energy and cost count, the system's operating hours, the same for every candidate ("" in selections frozen before they were kept). */
+const opHours = (view: WorkbenchView) => {
+  const h = view.candidates.find((c) => c.result?.figures?.motor?.hoursPerYear != null)?.result?.figures?.motor.hoursPerYear;
+  return h != null ? ` × ${amountText(h)} h/yr` : "";
 };
 
 /** Side-by-side figures of the candidates at their operating points. */
@@ -126,10 +126,10 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     }],
     ["Electrical input", (c) => totalPowerText(unitSystem, c.result?.figures?.motor?.electricalPower, basisOf(c))],
     // At the design operating point for every running hour (hoursPerYear); the duty cycle's rows below spread the hours over part loads.
-    // Each figure names the hours it counts: the operating point's (the system's operating hours), the duty cycle's below (its steps' hours).
-    ["Energy per year at the operating point (electrical, every running hour there)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}${opHours(c)}` : "—")],
-    ["Energy cost per year at the operating point", (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}${opHours(c)}` : moneyText(null, ""))],
-    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
+    // Each label names the hours its figures count: the operating point's (the system's operating hours), the duty cycle's (its steps' hours).
+    [`Energy per year at the operating point${opHours(view)} (electrical, every running hour there)`, (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
+    [`Energy cost per year at the operating point${opHours(view)}`, (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
+    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? "", cycleHoursText(view.candidates.map((c) => c.energy?.cycle))),
   ];
   return (
     <div className="overflow-x-auto">

@@ -38,7 +38,7 @@ describe("no step counted: energy and life-cycle cost not computed, with the rea
     expect(rows(none)["Life-cycle cost (present value)"]).toBe(`not computed (${why})`);
     expect(panel(none)).toContain(`Not drawn: 1 Pump A: not computed (${why}).`);
     expect(panel(none)).not.toMatch(/2500\.00 EUR over 10 years/);
-    expect(report(none)).toContain(`Energy per year over 1 steps: not computed (${why}); life-cycle cost (present value): not computed (${why}).`);
+    expect(report(none)).toContain(`Energy per year over 1 steps, 1000 h/yr: not computed (${why}); life-cycle cost (present value): not computed (${why}).`);
     const csv = csvOf(none);
     expect(csvFigure(csv, "cycle_annual_energy_electrical")).toBe(`not computed: ${why}`);
     expect(csvFigure(csv, "lcc_total_present_value")).toBe(`not computed: ${why}`);
@@ -71,9 +71,11 @@ describe("each energy cost per year names the hours it counts", () => {
     const view = { evaluation: null, systemError: null, flowMax: 0.02, needsReview: [], candidates: [{ id: 1, curveSetId: 1, label: "P", library: "L", adjustment: DEFAULT_ADJUSTMENT, result: r, error: null, energy: e }] } as unknown as WorkbenchView;
     const html = text(renderToStaticMarkup(createElement(CandidateTable, { view, unitSystem: SI_UNITS })));
     expect(r.figures!.motor.hoursPerYear).toBe(8000);
-    expect(html).toMatch(/Energy cost per year at the operating point \d+\.\d\d EUR \(at the operating point × 8000 h\/yr\)/);
-    expect(html).toMatch(/Energy per year over the duty cycle \d+ kWh \(duty cycle, 1000 h\/yr\)/);
+    expect(html).toMatch(/Energy cost per year at the operating point × 8000 h\/yr \d+\.\d\d EUR /);
+    expect(html).toMatch(/Energy per year at the operating point × 8000 h\/yr \(electrical, every running hour there\) \d+ kWh /);
+    expect(html).toMatch(/Energy per year over the duty cycle, 1000 h\/yr \d+ kWh /);
     expect(panel(e)).toMatch(/\d+ kWh · \d+\.\d\d EUR \(duty cycle, 1000 h\/yr\)/);
+    expect(report(e)).toMatch(/Energy per year over 1 steps, 1000 h\/yr: \d+ kWh;/);
   });
   it("the CSV gives each cost's hours", () => {
     const csv = selectionCsv(1, "t", { system: { input }, pump: { library: { traced: null } }, adjustment: DEFAULT_ADJUSTMENT, result: r, energy: e } as unknown as FrozenSelection);
