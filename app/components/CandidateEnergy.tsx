@@ -2,11 +2,11 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import { missingStepsText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { lccShown, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
-import { column, moneySumNote, moneyText, printedSum } from "~/components/energy-numbers";
+import { amountText, column, moneySumNote, moneyText, printedSum } from "~/components/energy-numbers";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 
 /** A candidate with its energy; `adjustment` says how many duty pumps the cycle's power and energy are for (absent: one). */
@@ -38,6 +38,8 @@ export const cycleColumns = (cycle: Cycle) => ({
 export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis | null = null): string {
   if (!e?.cycle) return e?.cycleError ?? "—";
   if (e.cycle.totalHours === 0) return "— (no operating hours given)";
+  const none = noStepCounted(e.cycle);
+  if (none) return `not computed (${none})`;
   return `${cycleColumns(e.cycle).energy.total} kWh${basis ? ` ${basis.forAll}` : ""}${incompleteMark(e.cycle)}`;
 }
 
@@ -49,13 +51,22 @@ export const lccWarnings = (lcc: Energy["lcc"] | undefined): string[] => (lcc?.w
  * why there is none when hours or tariff are not given.
  */
 export function lccText(e: Energy | null | undefined, currency: string): string {
-  if (e?.lcc) return `${moneyText(e.lcc.total, currency)} over ${e.lcc.yearly.length} years${incompleteMark(e.cycle)}${lccWarnings(e.lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  const lcc = lccShown(e);
+  if (lcc) return `${moneyText(lcc.total, currency)} over ${lcc.yearly.length} years${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  const none = noStepCounted(e?.cycle);
+  if (none) return `not computed (${none})`;
   return e?.costMissing ? `— (${e.costMissing})` : "—";
 }
 
-/** Rows for the candidates table: cycle energy, purchase price, life-cycle cost. */
-export const energyRows = (currency: string): [string, (c: Cand) => React.ReactNode][] => [
-  ["Energy per year over the duty cycle", (c) => cycleEnergyText(c.energy, cycleBasis(c))],
+/** ", 1000 h/yr": the hours a duty cycle's energy and cost count (the profile's, the same for every candidate); "" without a cycle or hours. */
+export const cycleHoursText = (cycles: readonly (Energy["cycle"] | undefined)[]): string => {
+  const h = cycles.find((x) => x != null)?.totalHours;
+  return h != null && h > 0 ? `, ${amountText(h)} h/yr` : "";
+};
+
+/** Rows for the candidates table: cycle energy (its hours in the label), purchase price, life-cycle cost. */
+export const energyRows = (currency: string, hours = ""): [string, (c: Cand) => React.ReactNode][] => [
+  [`Energy per year over the duty cycle${hours}`, (c) => cycleEnergyText(c.energy, cycleBasis(c))],
   // As entered for the candidate as offered: with several pumps, the price of all of them (standby included).
   ["Purchase price", (c) => `${moneyText(c.energy?.purchasePrice, currency)}${c.energy?.purchasePrice != null && cycleBasis(c) ? ` for all ${cycleBasis(c)!.arrangement}` : ""}`],
   ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
@@ -80,7 +91,8 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       <LifeCycleChart
         title="Cumulative life-cycle cost (present value) by year"
         currency={currency}
-        series={candidates.flatMap((c, i) => (c.energy?.lcc ? [{ id: c.id, label: `${i + 1} ${c.label}${incompleteMark(c.energy.cycle)}`, cumulative: c.energy.lcc.cumulative }] : []))}
+        series={candidates.flatMap((c, i) => { const lcc = lccShown(c.energy); return lcc ? [{ id: c.id, label: `${i + 1} ${c.label}${incompleteMark(c.energy!.cycle)}`, cumulative: lcc.cumulative }] : []; })}
+        notDrawn={candidates.flatMap((c, i) => { const none = noStepCounted(c.energy?.cycle); return none ? [`${i + 1} ${c.label}: not computed (${none})`] : []; })}
       />
       {first ? (
         <ul className="list-disc pl-5 text-xs text-slate-600">
@@ -102,6 +114,7 @@ function roundedNote(cols: ReturnType<typeof cycleColumns>): string {
 
 export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitChoice; currency: string; canWrite?: boolean; error?: string }) {
   const e = c.energy;
+  const lcc = lccShown(e);
   const cols = e?.cycle ? cycleColumns(e.cycle) : null;
   return (
     <div className="space-y-1" data-testid={`cycle-${c.id}`}>
@@ -187,7 +200,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                 </td>
                 <td className="pr-2">{cols.hours.total}</td>
                 <td className="pr-2" data-testid={`cycle-total-${c.id}`}>
-                  {e.cycle.totalHours === 0 ? "—" : `${cols.energy.total} kWh · ${moneyText(e.annualCost, currency)}`}
+                  {e.cycle.totalHours === 0 ? "—" : noStepCounted(e.cycle) ? "not computed" : `${cols.energy.total} kWh · ${moneyText(e.annualCost, currency)} (duty cycle, ${amountText(e.cycle.totalHours)} h/yr)`}
                 </td>
               </tr>
               {roundedNote(cols) ? (
@@ -208,16 +221,16 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
           ))}
         </ul>
       ) : null}
-      {e?.lcc ? (
+      {lcc ? (
         <p className="text-xs" data-testid={`lcc-${c.id}`}>
-          Life-cycle cost over {e.lcc.yearly.length} years: <strong>{moneyText(e.lcc.total, currency)}</strong> = purchase {e.lcc.purchaseGiven ? moneyText(e.lcc.purchase, currency) : "not given (0)"} + energy {moneyText(e.lcc.energyPresentValue, currency)} (present value)
-          {moneySumNote([e.lcc.purchase, e.lcc.energyPresentValue], e.lcc.total, currency)}
-          {e.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
+          Life-cycle cost over {lcc.yearly.length} years: <strong>{moneyText(lcc.total, currency)}</strong> = purchase {lcc.purchaseGiven ? moneyText(lcc.purchase, currency) : "not given (0)"} + energy {moneyText(lcc.energyPresentValue, currency)} (present value)
+          {moneySumNote([lcc.purchase, lcc.energyPresentValue], lcc.total, currency)}
+          {e?.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
         </p>
       ) : null}
-      {lccWarnings(e?.lcc).length > 0 ? (
+      {lccWarnings(lcc).length > 0 ? (
         <ul className="text-xs text-duty-ink" data-testid={`lcc-warnings-${c.id}`}>
-          {lccWarnings(e?.lcc).map((w) => (
+          {lccWarnings(lcc).map((w) => (
             <li key={w}>▲ {w}</li>
           ))}
         </ul>

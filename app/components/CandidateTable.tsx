@@ -3,13 +3,13 @@
 // and electrical input per pump and for the duty pumps together, the largest power on the curve and the motor per pump
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
-import { energyRows } from "~/components/CandidateEnergy";
+import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
-import { adjustmentText, VerdictView } from "./workbench";
+import { adjustmentText, npshNoteOf, VerdictView } from "./workbench";
 import { perPumpPowerText, totalPowerText } from "./power-text";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -44,13 +44,19 @@ function overloadText(f: NonNullable<NonNullable<Cand["result"]>["figures"]>): s
   return f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload");
 }
 
+/** " × 8000 h/yr": the hours the operating point's energy and cost count, the system's operating hours, the same for every candidate ("" in selections frozen before they were kept). */
+const opHours = (view: WorkbenchView) => {
+  const h = view.candidates.find((c) => c.result?.figures?.motor?.hoursPerYear != null)?.result?.figures?.motor.hoursPerYear;
+  return h != null ? ` × ${amountText(h)} h/yr` : "";
+};
+
 /** Side-by-side figures of the candidates at their operating points. */
 export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
   if (view.candidates.length === 0) return null;
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} />)],
+    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
     ["Crossing", (c) => (c.error ? "—" : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
@@ -80,7 +86,12 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Shaft power", (c) => totalPowerText(unitSystem, c.result?.figures?.shaftPower, basisOf(c))],
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
     ["NPSHa / NPSHr (design curve)", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
-    ["NPSH margin", (c) => (c.result?.figures?.npshMarginRatio != null ? <span className={c.result.figures.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(c.result.figures.npshMarginRatio, c.result.npsh?.requiredMargin)} ({c.result.figures.npshStatus})</span> : "—")],
+    // NPSHa at or below zero: its ratio to NPSHr means nothing; NPSHa is shown.
+    ["NPSH margin", (c) => {
+      const f = c.result?.figures;
+      if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQExact(unitSystem, "head", f.npshAvailable, [0])}, at or below zero (cavitation-risk)</span>;
+      return f?.npshMarginRatio != null ? <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span> : "—";
+    }],
     ["Largest power on curve", (c) => perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c))],
     ["Motor", (c) => {
       const f = c.result?.figures;
@@ -115,9 +126,10 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     }],
     ["Electrical input", (c) => totalPowerText(unitSystem, c.result?.figures?.motor?.electricalPower, basisOf(c))],
     // At the design operating point for every running hour (hoursPerYear); the duty cycle's rows below spread the hours over part loads.
-    ["Energy per year at the operating point (electrical, every running hour there)", (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
-    ["Energy cost per year at the operating point", (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
-    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? ""),
+    // Each label names the hours its figures count: the operating point's (the system's operating hours), the duty cycle's (its steps' hours).
+    [`Energy per year at the operating point${opHours(view)} (electrical, every running hour there)`, (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
+    [`Energy cost per year at the operating point${opHours(view)}`, (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
+    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? "", cycleHoursText(view.candidates.map((c) => c.energy?.cycle))),
   ];
   return (
     <div className="overflow-x-auto">

@@ -9,9 +9,11 @@ export type LifeCycleSeries = { id: number; label: string; cumulative: number[] 
 
 const COLOURS = ["#1d4ed8", "#b45309", "#047857", "#7c3aed", "#be123c", "#0f766e"];
 
-export function LifeCycleChart({ series, currency, title }: { series: LifeCycleSeries[]; currency: string; title: string }) {
+/** `notDrawn`: the candidates with no life-cycle cost to draw, each with why ("2 Pump B: not computed (…)"), named under the chart. */
+export function LifeCycleChart({ series, currency, title, notDrawn = [] }: { series: LifeCycleSeries[]; currency: string; title: string; notDrawn?: string[] }) {
   const shown = series.filter((s) => s.cumulative.length > 1 && s.cumulative.every(Number.isFinite));
-  if (shown.length === 0) return null;
+  const missing = notDrawn.length ? <p className="text-xs text-duty-ink" data-testid="lcc-not-drawn">Not drawn: {notDrawn.join("; ")}.</p> : null;
+  if (shown.length === 0) return missing;
   const width = 640, height = 280;
   const m = { top: 16, right: 16, bottom: 40, left: 72 };
   const years = Math.max(...shown.map((s) => s.cumulative.length - 1));
@@ -55,6 +57,7 @@ export function LifeCycleChart({ series, currency, title }: { series: LifeCycleS
           </span>
         ))}
       </figcaption>
+      {missing}
     </figure>
   );
 }

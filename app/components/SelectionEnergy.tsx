@@ -1,6 +1,6 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
-import type { CandidateEnergy } from "~/lib/projects/energy";
-import { CandidateCycle, cycleBasis, cycleEnergyText, incompleteMark, lccText } from "~/components/CandidateEnergy";
+import { lccShown, noStepCounted, type CandidateEnergy } from "~/lib/projects/energy";
+import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleNoteLines } from "~/components/cycle-notes";
 import type { UnitChoice } from "~/lib/shared/units";
@@ -10,6 +10,7 @@ type Cand = Parameters<typeof cycleBasis>[0] & { energy?: CandidateEnergy | null
 export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSystem: UnitChoice; currency: string }) {
   const e = c.energy;
   const basis = cycleBasis(c);
+  const lcc = lccShown(e);
   if (!e) return null; // selections frozen before load profiles have none
   return (
     <section className="panel break-inside-avoid space-y-2" aria-labelledby="sel-energy-h">
@@ -21,9 +22,9 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
       </p>
       {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
       <p className="hidden text-xs print:block" data-testid="energy-print">
-        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} steps: ${cycleEnergyText(e)}` : e.cycleError}
+        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} steps${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
-        {e.lcc ? ` (${e.lcc.source})` : ""}.
+        {lcc ? ` (${lcc.source})` : ""}.
       </p>
       {/* A step not met or not computed, and each warning, printed at its step with the engine's message. */}
       {e.cycle && cycleNoteLines(e.cycle).length > 0 ? (
@@ -35,12 +36,13 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
       ) : null}
       <div className="no-print space-y-2">
         <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
-        {e.lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: `${c.label}${incompleteMark(e.cycle)}`, cumulative: e.lcc.cumulative }]} /> : null}
+        {lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: `${c.label}${incompleteMark(e.cycle)}`, cumulative: lcc.cumulative }]} /> : null}
+        {noStepCounted(e.cycle) ? <p className="text-xs text-duty-ink" data-testid="lcc-not-drawn">Life-cycle cost not drawn: not computed ({noStepCounted(e.cycle)}).</p> : null}
         <ul className="list-disc pl-5 text-xs text-slate-600">
           {e.assumptions.map((a) => (
             <li key={a}>{a}</li>
           ))}
-          {e.lcc ? <li>Life-cycle cost: {e.lcc.source}.</li> : null}
+          {lcc ? <li>Life-cycle cost: {lcc.source}.</li> : null}
         </ul>
       </div>
     </section>

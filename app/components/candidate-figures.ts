@@ -59,10 +59,13 @@ export function npshMarginText(ratio: number | null | undefined, requiredMargin:
  * @param n the judgement (`npshOverBand`): ratio (dimensionless) or NPSHa (m) where it is decided
  */
 export function npshLowestText(units: UnitChoice, n: NpshJudgement): string {
-  return n.marginRatio == null && n.available != null
+  return (n.marginRatio == null || atOrBelowZero(n)) && n.available != null
     ? `NPSHa ${fmtQExact(units, "head", n.available, [0])} at ${n.at}`
     : `lowest ${npshMarginText(n.marginRatio, n.requiredMargin)} at ${n.at}`;
 }
+
+/** NPSHa at or below zero there (m): its ratio to NPSHr means nothing, NPSHa is shown instead (selections frozen before kept such ratios). */
+const atOrBelowZero = (p: { available?: number | null }): boolean => p.available != null && p.available <= 0;
 
 /**
  * The points the NPSH rule names but could not judge, with why: "not judged at least lift, new pipe (no operating point)";
@@ -82,7 +85,7 @@ export function npshUnjudgedText(n: NpshJudgement | null | undefined): string | 
  */
 export function npshPointsText(units: UnitChoice, n: NpshJudgement): string {
   return (n.judgedAt ?? [])
-    .map((p) => `${p.at} ${p.marginRatio != null ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQExact(units, "head", p.available, [0])}` : "—"}`)
+    .map((p) => `${p.at} ${p.marginRatio != null && !atOrBelowZero(p) ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQExact(units, "head", p.available, [0])}` : "—"}`)
     .join("; ");
 }
 
@@ -93,7 +96,7 @@ export function npshPointsText(units: UnitChoice, n: NpshJudgement): string {
  * @param n the judgement (`npshOverBand`), ratios dimensionless
  */
 export function npshJudgedRange(n: NpshJudgement | null | undefined): string | null {
-  const ratios = (n?.judgedAt ?? []).map((p) => p.marginRatio).filter((x): x is number => x != null && Number.isFinite(x));
+  const ratios = (n?.judgedAt ?? []).filter((p) => !atOrBelowZero(p)).map((p) => p.marginRatio).filter((x): x is number => x != null && Number.isFinite(x));
   if (ratios.length === 0) return null;
   const [lo, hi] = [Math.min(...ratios), Math.max(...ratios)];
   const [a, b] = [npshMarginText(lo, n?.requiredMargin), npshMarginText(hi, n?.requiredMargin)];

@@ -38,7 +38,7 @@ describe("money to the currency's minor unit (ISO 4217 digits from Intl.NumberFo
     const e = energyOf({ hoursPerYear: 2, tariffPerKWh: 0.11 }, 1250);
     expect(e.annualCost!).toBeGreaterThan(0.395);
     expect(e.annualCost!).toBeLessThan(0.405);
-    expect(table(e).total).toMatch(/ · 0\.40 EUR$/);
+    expect(table(e).total).toMatch(/ · 0\.40 EUR \(duty cycle, 2 h\/yr\)$/);
     expect(rows(e)["Purchase price"]).toBe("12.50 EUR");
   });
   it("the life-cycle cost line adds up as printed: purchase + energy = total (was 13 + 15603 = 15615 with a price of 12.50)", () => {

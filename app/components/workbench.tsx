@@ -8,6 +8,13 @@ import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtNum, fmtQ, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel, type Verdict } from "~/engine";
 import { ListTable } from "./ListTable";
+import { verdictNpshNote, verdictNpshShort } from "~/lib/projects/verdict-npsh";
+
+/** What NPSH says against a candidate's verdict, in the reader's units, for `VerdictView`'s `npshNote` (null: nothing). */
+export const npshNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
+  const note = r ? verdictNpshNote(r.verdict, r.npsh) : null;
+  return note ? renderUnits(note, units) : null;
+};
 
 type Cand = WorkbenchView["candidates"][number];
 
@@ -20,7 +27,7 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? verdictLabel(r.verdict.status) : "no duty to judge"}`,
+    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}` : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
@@ -134,12 +141,21 @@ const VERDICT_TONE: Record<Verdict["status"], string> = {
   "viscosity-uncorrected": "bg-amber-100 text-amber-900",
 };
 
-/** The verdict as a badge (status), with its rule and reasons below unless `compact`. */
-export function VerdictView({ verdict, compact, testId }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string }) {
+/**
+ * The verdict as a badge (status), with its rule and reasons below unless `compact`. `npshNote`: what NPSH says against it
+ * (verdict-npsh.ts `verdictNpshNote`, rendered in the reader's units), on the badge's line, with the NPSH rule.
+ */
+export function VerdictView({ verdict, compact, testId, npshNote, npshRule }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string; npshNote?: string | null; npshRule?: string | null }) {
   if (!verdict) return <span className="text-slate-600" data-testid={testId} data-status="none">no duty point set: nothing to judge</span>;
   return (
-    <div data-testid={testId} data-status={verdict.status}>
+    <div data-testid={testId} data-status={verdict.status} data-npsh={npshNote ? "against" : undefined}>
       <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-semibold ${VERDICT_TONE[verdict.status]}`}>{verdictLabel(verdict.status)}</span>
+      {npshNote ? (
+        <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-npsh` : undefined} title={npshRule ?? undefined}>
+          {" — "}
+          {npshNote}
+        </span>
+      ) : null}
       {compact ? null : (
         <>
           {verdict.reasons.map((r, i) => (

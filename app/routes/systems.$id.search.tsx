@@ -10,10 +10,12 @@ import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
+import { verdictNpshNote } from "~/lib/projects/verdict-npsh";
+import { npshLeftOutText } from "~/components/search-npsh";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
-import { renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtQExact, labelOf } from "~/lib/shared/units";
+import { renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
 import { readSearchFilters } from "~/lib/projects/search-filters";
 import { Pager } from "~/components/Pager";
 import { publishedOf, settingToken } from "~/lib/projects/setting-step";
@@ -93,6 +95,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       library: r.library,
       alsoIn: r.alsoIn,
       verdict: r.verdict,
+      // What NPSH over the band says against the verdict, on its line (verdict-npsh.ts); tokens rendered by renderDeep.
+      verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
       already: already.has(r.curveSetId),
     })),
     paging: res.paging,
@@ -189,7 +193,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
           {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty
-          {d.stats.rejectedByNpsh ? ` · ${d.stats.rejectedByNpsh} left out because their NPSHr at the duty is above the NPSHa there (${d.npshaAtDuty != null ? fmtQExact(sys, "head", d.npshaAtDuty, [0]) : "—"})` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
+          {d.stats.rejectedByNpsh ? ` · ${npshLeftOutText(d.stats.rejectedByNpsh, d.npshaAtDuty, sys)}` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.overPower ? ` · ${d.hidden.overPower} above the max shaft power at their operating point left out` : ""}
           {d.powerFilter?.cut ? (
@@ -256,7 +260,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>{r.how}</td>
                     <td className="max-w-xs">
-                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} />
+                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} />
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>
                     <td>

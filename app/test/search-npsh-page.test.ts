@@ -54,6 +54,20 @@ describe("the search page's NPSH", () => {
     expect(text(html, "search-stats")).toMatch(/ · 1 left out because their NPSHr at the duty is above the NPSHa there \(\d\.\d+ m\)/);
   });
 
+  test("the cavitating pump's verdict is qualified on its line by NPSH over the band, with NPSHa, NPSHr and where", async () => {
+    const html = await pageHtml(await npshProbeSystem(v, projectId, 2));
+    const notes = [...html.matchAll(/data-testid="search-verdict-\d+-npsh"[^>]*>(.*?)<\/span>/gs)].map((x) => x[1].replace(/<[^>]+>/g, ""));
+    expect(notes).toHaveLength(1); // Probe A only (Probe B's NPSH is ok: no note)
+    expect(notes[0]).toMatch(/^ — (but|and) NPSHa \d+\.\d+ m below NPSHr \d+\.\d+ m at least lift, new pipe \(NPSHa \/ NPSHr 0\.\d+, below 1\): cavitation risk$/);
+  });
+
+  test("NPSHa at the duty at or below zero: the pumps left out are counted as no pump can run there, not by their NPSHr", async () => {
+    // 20 °C water under one standard atmosphere holds about 10.3 m (common practice): a 12 m suction lift leaves NPSHa below zero.
+    const html = await pageHtml(await npshProbeSystem(v, projectId, -12));
+    expect(text(html, "search-stats")).toMatch(/ · 2 left out because NPSHa at the duty is -\d\.\d+ m, at or below zero: no pump can run there without cavitating, whatever its NPSHr/);
+    expect(text(html, "search-stats")).not.toMatch(/their NPSHr at the duty is above/);
+  });
+
   test("a custom liquid: the page gives the equivalent water duty searched, its factors and rule, and each verdict on the liquid", async () => {
     // A light oil (invented figures: 870 kg/m³, 0.05 Pa·s = 57.5 cSt, 100 Pa vapour pressure): B inside 1–40 at 2900 rpm for
     // this duty (ANSI/HI 9.6.7 from memory; hand values of the method in app/engine/viscous.test.ts).

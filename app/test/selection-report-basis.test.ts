@@ -64,13 +64,13 @@ describe.each(["parallel", "series"] as const)("2 pumps in %s: every power figur
     expect(motor).toContain("Suggested per pump (each pump has its own motor)");
     const band = figureCell(pages.html, "Shaft power over the band");
     expect(band).toMatch(/ per pump, .* for 2 duty pumps$/);
-    expect(figureCell(pages.html, "Energy per year at the operating point (electrical, every running hour there)")).toMatch(/ kWh for 2 duty pumps$/);
+    expect(figureCell(pages.html, "Energy per year at the operating point × 4000 h/yr (electrical, every running hour there)")).toMatch(/ kWh for 2 duty pumps$/);
   });
 
   test("the printed energy line says it is for the 2 duty pumps", () => {
     const printed = /data-testid="energy-print"[^>]*>([\s\S]*?)<\/p>/.exec(got[name].pages.html)?.[1];
     expect(printed).toBeTruthy();
-    expect(textOf(printed!)).toMatch(/^Energy per year, 2 duty pumps together, over \d+ steps: /);
+    expect(textOf(printed!)).toMatch(/^Energy per year, 2 duty pumps together, over \d+ steps, \d+ h\/yr: /);
   });
 
   test("the CSV: a basis column on the figures, per-pump rows beside the totals, and the curve, band and cycle powers named as totals", () => {

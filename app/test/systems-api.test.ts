@@ -163,6 +163,15 @@ describe("searchResultView (pure)", () => {
     expect(searchResultView({ ...base, method: "direct", ratio: 1, verdict, library: "Own", modelId: 9 }).adjustment.kind).toBe("none");
     expect(searchResultView({ ...base, verdict, library: "Own", modelId: 9 })).toMatchObject({ verdict, library: "Own", modelId: 9 });
   });
+  test("verdictNpsh: what NPSH says against the verdict on its line, flipping with the status (none when ok)", () => {
+    // Rule: NPSHa / NPSHr below 1 is a cavitation risk (common practice); the figures are made up.
+    const verdict = { status: "meets", rule: "r", reasons: ["x"] };
+    const point = (ratio: number) => ({ at: "least lift, new pipe", flow: 0.01, available: 2 * ratio, required: 2, marginRatio: ratio });
+    const npsh = (ratio: number) => ({ status: ratio < 1 ? "cavitation-risk" : ratio < 1.1 ? "low-margin" : "ok", marginRatio: ratio, at: "least lift, new pipe", available: 2 * ratio, rule: "r", requiredMargin: 1.1, judgedAt: [point(ratio)] });
+    expect(searchResultView({ ...base, verdict, npsh: npsh(1.2) }).verdictNpsh).toBeNull();
+    expect(searchResultView({ ...base, verdict, npsh: npsh(0.81) }).verdictNpsh).toBe("but NPSHa ⟦head|1.62|2⟧ below NPSHr ⟦head|2|1.62⟧ at least lift, new pipe (NPSHa / NPSHr 0.81, below 1): cavitation risk");
+    expect(searchResultView({ ...base, verdict: null, npsh: npsh(0.81) }).verdictNpsh).toBeNull();
+  });
   test("passes the band's NPSH judgement through (its NPSHa null when a stored one lacks it), null without", () => {
     expect(searchResultView(base).npsh).toBeNull();
     const npsh = { status: "cavitation-risk", marginRatio: 0.81, at: "least lift, new pipe", rule: "r", judgedAt: [] };

@@ -133,11 +133,16 @@ export type NpshJudgement = {
  * aged suction loses the most head, so the design point alone can read "ok" while a corner cavitates.
  * @param design NPSH at the design operating point, null without one
  * @param corners NPSH at each level × pipe combination of the band (`npshCorners`)
+ * A point with NPSHa at or below zero is judged by that alone: a ratio NPSHa / NPSHr ≤ 0 means nothing, so where any
+ * point has NPSHa ≤ 0 the lowest NPSHa decides (`marginRatio` null), and the text reads "NPSHa … at or below zero".
  * @param requiredMargin the wanted NPSHa / NPSHr (dimensionless, > 1)
+ * @param suctionStaticHead the suction static head as entered, m (the same at every corner: the band's lift is the
+ *   system's static head, not the suction level); named in the rule when given
  */
-export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number): NpshJudgement {
+export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number, suctionStaticHead?: number): NpshJudgement {
   const where = corners.map((c) => c.at).join("; ");
-  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where}); below 1, or NPSHa at or below zero whatever the pump: cavitation risk; a point with no operating point or no NPSHr leaves it unknown, unless another already shows a cavitation risk`;
+  const suction = suctionStaticHead != null ? `, NPSHa at each with the suction static head as entered (${qt("head", suctionStaticHead)}), the same at every corner: the band's lift varies the system's static head, not the suction level` : "";
+  const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where})${suction}; below 1, or NPSHa at or below zero whatever the pump: cavitation risk; a point with no operating point or no NPSHr leaves it unknown, unless another already shows a cavitation risk`;
   const judgedAt = design ? [design, ...corners] : [...corners];
   const unjudged = [
     ...(design ? [] : [{ at: "design point", why: "no operating point" }]),
@@ -146,16 +151,16 @@ export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoi
   let lowest: NpshPoint | null = null;
   let zero: NpshPoint | null = null;
   for (const p of judgedAt) {
-    if (p.marginRatio != null && (lowest === null || p.marginRatio < lowest.marginRatio!)) lowest = p;
+    if (p.marginRatio != null && !(p.available != null && p.available <= 0) && (lowest === null || p.marginRatio < lowest.marginRatio!)) lowest = p;
     if (p.available != null && p.available <= 0 && (zero === null || p.available < zero.available!)) zero = p;
   }
-  // NPSHa ≤ 0 decides only where no ratio already says cavitation (with NPSHr known there, its ratio is ≤ 0 < 1).
-  const byZero = zero !== null && !(lowest !== null && lowest.marginRatio! < 1);
+  // NPSHa ≤ 0 anywhere decides, by NPSHa: a ratio with NPSHa ≤ 0 (NPSHr known there) means nothing and is never the one shown.
+  const byZero = zero !== null;
   const decides = byZero ? zero : lowest;
   const judged: NpshStatus = byZero ? "cavitation-risk" : npshStatus(lowest?.marginRatio ?? null, requiredMargin);
   // "ok" or a low margin over part of the band is no conclusion for the rest: a point not judged leaves it unknown.
   const status: NpshStatus = judged !== "cavitation-risk" && unjudged.length > 0 ? "unknown" : judged;
-  return { status, marginRatio: decides?.marginRatio ?? null, at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt, unjudged };
+  return { status, marginRatio: byZero ? null : (decides?.marginRatio ?? null), at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt, unjudged };
 }
 
 /** A band point's NPSH as judged (`npshOverBand`). */
@@ -178,6 +183,8 @@ export type MotorFigures = {
   electricalPower: number | null;
   annualEnergyKWh: number | null;
   annualCost: number | null;
+  /** The hours a year `annualEnergyKWh` and `annualCost` count at the operating point (the system's operating hours); absent in selections frozen before it was kept. */
+  hoursPerYear?: number;
   currency: string;
   warnings: string[];
 };
@@ -325,6 +332,7 @@ export function motorFigures(o: {
     electricalPower: energy?.electricalPower ?? null,
     annualEnergyKWh: o.hoursPerYear > 0 ? (energy?.annualEnergyKWh ?? null) : null,
     annualCost: o.hoursPerYear > 0 && o.tariffPerKWh > 0 ? (energy?.annualCost ?? null) : null, // 0 per kWh: tariff not given
+    hoursPerYear: o.hoursPerYear,
     currency: o.currency,
     warnings,
   };

@@ -83,8 +83,9 @@ export type CandidateEnergy = {
   purchasePrice: number | null;
   lcc: LifeCycleResult | null;
   /**
-   * What is not given for an energy cost (blank or 0 operating hours, blank or 0 tariff), or null. When set, no
-   * energy cost is counted and no life-cycle cost is given. Absent in selections frozen before 2026-12-02.
+   * What is not given for an energy cost (blank or 0 operating hours, blank or 0 tariff), or why none can be counted
+   * (no step of the cycle with hours counted: `noStepCounted`), or null. When set, no energy cost is counted and no
+   * life-cycle cost is given. Absent in selections frozen before 2026-12-02.
    */
   costMissing?: string | null;
   assumptions: string[];
@@ -165,6 +166,7 @@ export function candidateEnergy(
       const missing = [
         out.cycle.totalHours > 0 ? null : prof.source === "common-practice" ? "no operating hours given (blank or 0 h per year)" : "the load profile's steps have no hours",
         input.tariffPerKWh > 0 ? null : "no energy tariff given (blank or 0 per kWh)",
+        noStepCounted(out.cycle),
       ].filter((x): x is string => x !== null);
       out.costMissing = missing.length > 0 ? missing.join("; ") : null;
       if (out.costMissing === null) {
@@ -208,6 +210,22 @@ export function missingStepsText(cycle: { steps: readonly { status: string; hour
   if (notMet > 0) return `${notMet} ${of} not met${notComputed > 0 ? `, ${notComputed} not computed` : ""}`;
   return `${notComputed} ${of} not computed`;
 }
+
+/**
+ * Why a cycle's energy is not computed at all: it has hours, but no step with hours was counted (each not met or not
+ * computed), so its total is 0 kWh of nothing and a life-cycle cost on it is the purchase price alone:
+ * "no step of the duty cycle counted (1 of 1 step not met)"; null when a step with hours was counted, or when the cycle
+ * has no hours (that reason is `costMissing`'s own).
+ */
+export function noStepCounted(cycle: { totalHours: number; steps: readonly { status: string; hours: number }[] } | null | undefined): string | null {
+  if (!cycle || !(cycle.totalHours > 0)) return null;
+  const counted = cycle.steps.some((s) => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status) && s.hours > 0);
+  return counted ? null : `no step of the duty cycle counted (${missingStepsText(cycle)})`;
+}
+
+/** The life-cycle cost to show: none where no step was counted (`noStepCounted`; selections frozen before kept one). */
+export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnergy["cycle"] } | null | undefined): LifeCycleResult | null =>
+  e?.lcc && !noStepCounted(e.cycle) ? e.lcc : null;
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {

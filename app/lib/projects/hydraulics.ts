@@ -341,7 +341,7 @@ export function evaluateCandidate(
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
-  const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin);
+  const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
     warnings.push(npsh.marginRatio == null
       ? `NPSH at ${npsh.at}: NPSHa ${qtExact("head", npsh.available ?? NaN, [0])} is not above zero: cavitation risk whatever the pump's NPSHr`

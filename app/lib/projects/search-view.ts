@@ -3,6 +3,8 @@
 // efficiency, shaft power and BEP position are the verdict's (at the operating point); the search's own at the
 // typed duty, which rank the result, are `atTypedDuty`.
 import type { Candidate } from "~/engine";
+import type { NpshJudgement } from "./candidate-judgement";
+import { verdictNpshNote } from "./verdict-npsh";
 
 /** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
 export type SearchResultIn = Pick<
@@ -44,6 +46,8 @@ export type SearchResultView = {
   adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null };
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
+  /** What NPSH over the band says against the verdict, in words with its numbers ("but NPSHa … below NPSHr … at …: cavitation risk"), or null (verdict-npsh.ts). */
+  verdictNpsh: string | null;
   /**
    * NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule,
    * unjudged (the points the rule names that could not be judged, each { at, why }: any of them leaves the status "unknown") }, or null.
@@ -81,6 +85,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
     adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote },
     verdict: r.verdict ?? null,
+    verdictNpsh: verdictNpshNote(r.verdict as { status: string } | null | undefined, r.npsh as NpshJudgement | null | undefined),
     npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule, unjudged: r.npsh.unjudged ?? [] } : null,
     figures: {
       operatingPoint: r.operatingPoint,

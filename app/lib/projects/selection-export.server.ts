@@ -1,9 +1,11 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./selections.server";
 import { toCsv } from "../shared/csv";
-import { cycleWarnings, missingSteps, missingStepsText, stepVerdict, stepWarnings } from "./energy";
+import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, stepVerdict, stepWarnings } from "./energy";
 import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
 import { cautionFigures } from "./selection-cautions";
+import { verdictNpshNote } from "./verdict-npsh";
+import { inSI } from "~/engine/quantityText";
 
 const row = (xs: unknown[]) => xs;
 
@@ -52,6 +54,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("operating_head", f.result.operating?.head, "m");
   const verdict = f.result.verdict;
   add("verdict", verdict?.status ?? (f.result.verdict === undefined ? "not judged (selected before verdicts existed)" : "no duty point set"), "");
+  // What NPSH over the band says against the verdict (a cavitation risk or a low margin), as on the report's verdict line.
+  add("verdict_npsh", (() => { const n = verdictNpshNote(verdict, f.result.npsh); return n ? inSI(n) : null; })(), "");
   add("verdict_rule", verdict?.rule, "");
   (verdict?.reasons ?? []).forEach((r, i) => add(`verdict_reason_${i + 1}`, r, ""));
   add("verdict_edge", verdict?.edge, "");
@@ -88,6 +92,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   if (basis) add("electrical_input_per_pump", fig?.motor?.electricalPower != null ? fig.motor.electricalPower / basis.n : null, "W");
   add("annual_energy_electrical", fig?.annualEnergyKWh, "kWh");
   add("annual_cost", fig?.annualCost, fig?.motor?.currency || "currency");
+  // The hours annual_energy_electrical and annual_cost count at the operating point (the system's operating hours), not the duty cycle's.
+  add("annual_cost_hours", fig?.motor?.hoursPerYear ?? f.system.input.hoursPerYear, "h/yr");
   add("library", f.pump.library.name, "");
   add("library_revision", f.pump.library.revision, "");
   add("model", f.pump.model, "");
@@ -117,7 +123,7 @@ function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasi
       ])),
     );
   }
-  const lcc = f.energy?.lcc;
+  const lcc = lccShown(f.energy);
   if (lcc) {
     const currency = currencyOf(f);
     lines.push([]);
@@ -147,19 +153,22 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   if (c) {
     const { notMet, notComputed } = missingSteps(c);
     add("cycle_total_hours", c.totalHours, "h");
-    add("cycle_annual_energy_electrical", c.annualEnergyKWh, "kWh");
+    add("cycle_annual_energy_electrical", noStepCounted(c) ? `not computed: ${noStepCounted(c)}` : c.annualEnergyKWh, "kWh");
     add("cycle_complete", c.complete, "");
     add("cycle_steps_not_met", notMet, "");
     add("cycle_steps_not_computed", notComputed, "");
     if (!c.complete) add("cycle_incomplete_note", `incomplete: ${missingStepsText(c)}; their energy is missing from the total, the energy cost and the life-cycle cost`, "");
     cycleWarnings(c).forEach((w, i) => add(`cycle_warning_${i + 1}`, w, ""));
   }
-  add("cycle_energy_cost_per_year", e.annualCost, currency);
+  add("cycle_energy_cost_per_year", c && noStepCounted(c) ? `not computed: ${noStepCounted(c)}` : e.annualCost, currency);
+  if (c) add("cycle_energy_cost_hours", c.totalHours, "h/yr"); // the duty cycle's hours: not the operating point's (annual_cost_hours)
   add("cost_missing", e.costMissing ?? null, "");
   add("purchase_price", e.purchasePrice, currency);
-  add("lcc_total_present_value", e.lcc?.total ?? null, currency);
-  add("lcc_energy_present_value", e.lcc?.energyPresentValue ?? null, currency);
-  add("lcc_years", e.lcc ? e.lcc.yearly.length : null, "years");
-  add("lcc_source", e.lcc?.source ?? null, "");
-  (e.lcc?.warnings ?? []).forEach((w, i) => add(`lcc_warning_${i + 1}`, w.message, ""));
+  const lcc = lccShown(e);
+  const none = noStepCounted(c);
+  add("lcc_total_present_value", none ? `not computed: ${none}` : (lcc?.total ?? null), currency);
+  add("lcc_energy_present_value", lcc?.energyPresentValue ?? null, currency);
+  add("lcc_years", lcc ? lcc.yearly.length : null, "years");
+  add("lcc_source", lcc?.source ?? null, "");
+  (lcc?.warnings ?? []).forEach((w, i) => add(`lcc_warning_${i + 1}`, w.message, ""));
 }
