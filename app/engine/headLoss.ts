@@ -3,16 +3,16 @@
  * hf = (f·L/D + ΣK)·V²/(2g) (Darcy-Weisbach, common practice), or Hazen-Williams.
  */
 import { EngineInputError, requireFiniteResult, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
-import { churchill, colebrook, laminar } from "./friction.ts";
+import { churchill, laminar } from "./friction.ts";
 import { CORRELATIONS, findCorrelation, rangeWarning, type DarcyCorrelation, type FrictionMethod, type HeadLossCorrelation } from "./registry.ts";
 import { G0 } from "./units.ts";
+// Upper Reynolds number of laminar flow, and lower of fully turbulent (common practice); the transition's words.
+import { LAMINAR_MAX_RE, TURBULENT_MIN_RE, transitionMessage } from "./transitionText.ts";
+export { LAMINAR_MAX_RE, TURBULENT_MIN_RE };
 
 /** Flow regime. `no-flow` only when the flow is zero. */
 export type Regime = "laminar" | "transition" | "turbulent" | "no-flow";
 
-/** Upper Reynolds number of laminar flow, and lower of fully turbulent (common practice). */
-export const LAMINAR_MAX_RE = 2000;
-export const TURBULENT_MIN_RE = 4000;
 
 /**
  * Flow regime from Reynolds number: ≤ 2000 laminar, 2000–4000 transition, ≥ 4000 turbulent.
@@ -49,7 +49,7 @@ function darcy(method: string): DarcyCorrelation {
  * Darcy friction factor with regime and validity warnings. Laminar (Re ≤ 2000): 64/Re
  * (Churchill is used as-is in every regime, being one formula for all). Transition
  * (2000 < Re < 4000): the chosen correlation, flagged with its own wording (see
- * {@link transitionMessage}): a turbulent correlation gives the higher, conservative f there;
+ * transitionText.ts): a turbulent correlation gives the higher, conservative f there;
  * Churchill passes from the laminar value to the turbulent one, so it may give less.
  * Turbulent: the chosen correlation.
  * @param reynolds Reynolds number (dimensionless, > 0)
@@ -89,34 +89,6 @@ export function frictionFactorDetailed(
     return { frictionFactor: fUsed, regime, method: "churchill", warnings };
   }
   return { frictionFactor: f, regime, method: corr.id, warnings };
-}
-
-const f3 = (x: number) => x.toPrecision(3);
-
-/**
- * The transition warning in the words true of the correlation used. A turbulent correlation (Colebrook,
- * Swamee-Jain, Haaland) carried below Re 4000 gives an f above the laminar 64/Re: the higher, conservative
- * side of the uncertain range. Churchill's one formula passes from the laminar value at Re 2000 to the
- * turbulent one by Re 4000, so near Re 2000 it gives about 64/Re, well below Colebrook's (0.0320 against
- * 0.0494 at Re 2001, smooth pipe): it is called conservative only where it is at least Colebrook's value.
- * @param corr correlation used (unitless descriptor)
- * @param reynolds Reynolds number (dimensionless, 2000–4000)
- * @param relativeRoughness ε/D (dimensionless)
- * @param f friction factor it gave (dimensionless)
- */
-function transitionMessage(corr: DarcyCorrelation, reynolds: number, relativeRoughness: number, f: number): string {
-  const head = `Re = ${Math.round(reynolds)} is in the laminar–turbulent transition (2000–4000); friction is uncertain there`;
-  const lam = laminar(reynolds);
-  const vsLaminar = `${f >= lam ? "above" : "below"} the laminar 64/Re = ${f3(lam)}`;
-  if (corr.id !== "churchill") {
-    return `${head}. ${corr.name} used, a turbulent correlation carried below its range: f = ${f3(f)}, ${vsLaminar}${f >= lam ? ", the higher, conservative side" : ""}`;
-  }
-  const turb = colebrook(reynolds, relativeRoughness);
-  const blend = `${head}. ${corr.name} used, one formula passing from the laminar value to the turbulent one across it: f = ${f3(f)}, against the laminar 64/Re = ${f3(lam)}`;
-  if (!Number.isFinite(turb)) return `${blend}; it may be below a turbulent correlation's value, not the conservative side`;
-  return f >= turb
-    ? `${blend} and Colebrook's turbulent ${f3(turb)}: at or above the turbulent value, the conservative side`
-    : `${blend} and Colebrook's turbulent ${f3(turb)}: below the turbulent value, so not the conservative side (a turbulent correlation such as Colebrook gives the higher f)`;
 }
 
 /**

@@ -159,7 +159,9 @@ const BY_ID = new Map<string, Correlation>(CORRELATIONS.map((c) => [c.id, c]));
 /** Darcy methods selectable as the turbulent friction model. */
 export const FRICTION_METHODS: readonly FrictionMethod[] = ["colebrook", "swamee-jain", "haaland", "churchill"];
 
+/** A value or range end in a validity warning: zero as "0" (a range starting at 0 read "0.00e+0"), very large, small or whole values in powers of ten. */
 function fmt(x: number): string {
+  if (x === 0) return "0";
   return Number.isInteger(x) || Math.abs(x) >= 1e4 || Math.abs(x) < 1e-3 ? x.toExponential(2) : String(x);
 }
 

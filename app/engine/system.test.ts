@@ -95,10 +95,17 @@ describe("warnings of several runs", () => {
     expect(byRun("Suction line").length).toBeGreaterThan(0);
     expect(byRun("Rising main").length).toBe(byRun("Suction line").length);
   });
-  it("roughness at or above the inner diameter is refused naming the run and the field, not ε/D alone", () => {
+  it("roughness at or above half the inner diameter is refused naming the run and the field, not ε/D alone", () => {
     const spec = (aged: number): SystemSpec => ({ fluid, staticHead: 10, discharge: [{ name: "Rising main", length: 10, diameter: 0.001, roughness: 0.045e-3, agedRoughness: aged }] });
-    expect(() => systemHead(spec(0.005), 0.001, { roughness: "aged" })).toThrow("discharge[0].agedRoughness: must be below the inner diameter of Rising main, 0.001 m (got 0.005 m, ε/D = 5)");
-    expect(() => systemHead(spec(0.5e-3), 0.001, { roughness: "aged" })).not.toThrow(); // ε/D 0.5: below 1, computed with a range warning
+    expect(() => systemHead(spec(0.005), 0.001, { roughness: "aged" })).toThrow("discharge[0].agedRoughness: must be below half the inner diameter of Rising main, 0.001 m, 0.0005 m: roughness that high would close the bore, physically meaningless (got 0.005 m, ε/D = 5)");
+    // The rule flips at ε = D/2 (wall bumps meeting in the middle of the bore: no pipe has them, common practice).
+    expect(() => systemHead(spec(0.5e-3), 0.001, { roughness: "aged" })).toThrow(/agedRoughness: must be below half the inner diameter .* \(got 0\.0005 m, ε\/D = 0\.5\)/);
+    expect(() => systemHead(spec(0.49e-3), 0.001, { roughness: "aged" })).not.toThrow(); // ε/D 0.49: computed with a range warning
+  });
+  it("ε/D between 0.05 and 0.5 is computed with the correlation's range warning, its range read 0–0.05 (Colebrook's stated ε/D range, registry.ts)", () => {
+    const c = systemCurve({ fluid, staticHead: 10, discharge: [{ name: "Rising main", length: 10, diameter: 0.1, roughness: 0.049 }] }, { flowMax: 0.02, points: 5 });
+    const eps = c.warnings.filter((w) => w.code === "outside-validity" && w.parameter === "ε/D").map((w) => w.message);
+    expect(eps).toEqual(["Rising main: Colebrook (solved exactly): ε/D = 0.49 is outside its stated range 0–0.05; result given, use with care"]);
   });
 });
 

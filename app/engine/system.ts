@@ -10,7 +10,8 @@ import { sumKDetailed, type FittingUse } from "./fittings.ts";
 import { LAMINAR_MAX_RE, pipeHeadLoss, type LossModel, type PipeLossResult } from "./headLoss.ts";
 import { churchill, hazenWilliamsHeadLoss } from "./friction.ts";
 import { findCorrelation } from "./registry.ts";
-import type { FrictionMethod } from "./registry.ts";
+import type { DarcyCorrelation, FrictionMethod } from "./registry.ts";
+import { transitionBandWarning } from "./transitionText.ts";
 import { G0 } from "./units.ts";
 
 /** One pipe run (straight pipe of one size plus its fittings). */
@@ -83,6 +84,14 @@ export interface PreparedSystem {
   warnings: EngineWarning[];
 }
 
+/**
+ * Largest roughness a run takes, as a fraction of its inner diameter (ε < D/2, dimensionless): wall bumps half the
+ * diameter high would meet in the middle of the bore, so no pipe has one; a value there is a unit slip. Between
+ * 0.05 (the top of every friction correlation's stated ε/D range, registry.ts) and this the loss is computed with a
+ * range warning.
+ */
+export const ROUGHNESS_MAX_OF_DIAMETER = 0.5;
+
 interface PreparedRun {
   name: string;
   length: number;
@@ -99,9 +108,9 @@ function prepareRun(run: PipeRunSpec, where: string, lossModel: string, warnings
   const diameter = requirePositive(`${where}.diameter`, run.diameter);
   const roughness = requireNonNegative(`${where}.roughness`, run.roughness);
   const agedRoughness = requireNonNegative(`${where}.agedRoughness`, run.agedRoughness ?? roughness);
-  // ε/D must be below 1 (headLoss.ts): said here with the run, not later as a bare relativeRoughness.
+  // ε below half the inner diameter (ROUGHNESS_MAX_OF_DIAMETER): said here with the run, not later as a bare relativeRoughness.
   for (const [k, e] of [["roughness", roughness], ["agedRoughness", agedRoughness]] as const) {
-    if (e >= diameter) throw new EngineInputError(`${where}.${k}`, `must be below the inner diameter${run.name ? ` of ${run.name},` : ""} ${diameter} m (got ${e} m, ε/D = ${+(e / diameter).toPrecision(3)})`);
+    if (e >= diameter * ROUGHNESS_MAX_OF_DIAMETER) throw new EngineInputError(`${where}.${k}`, `must be below half the inner diameter${run.name ? ` of ${run.name},` : ""} ${diameter} m, ${diameter * ROUGHNESS_MAX_OF_DIAMETER} m: roughness that high would close the bore, physically meaningless (got ${e} m, ε/D = ${+(e / diameter).toPrecision(3)})`);
   }
   const fk = sumKDetailed(run.fittings ?? [], diameter, run.nominal);
   for (const w of fk.warnings) warnings.push({ ...w, message: `${run.name ?? where}: ${w.message}` });
@@ -327,21 +336,25 @@ export interface SystemCurve {
  * @param range.flowMin smallest flow, m³/s (default 0)
  * @param range.points number of points (count, dimensionless; default 41)
  * @param range.design case of the design curve (unitless; default nominal level, new pipe)
+ * @param range.duty the duty flow, m³/s (optional: the transition warning then says where it lies)
  */
 export function systemCurve(
   system: SystemSpec | PreparedSystem,
-  range: { flowMax: number; flowMin?: number; points?: number; design?: SystemCase },
+  range: { flowMax: number; flowMin?: number; points?: number; design?: SystemCase; duty?: number | null },
 ): SystemCurve {
   const sys = asPrepared(system);
   const flowMax = requirePositive("flowMax", range?.flowMax);
   const flowMin = requireNonNegative("flowMin", range.flowMin ?? 0);
   if (flowMin >= flowMax) throw new EngineInputError("flowMin", "must be below flowMax");
+  const duty = range.duty == null ? null : requirePositive("duty", range.duty);
   const n = Math.round(requireFinite("points", range.points ?? 41));
   if (n < 2 || n > 10_000) throw new EngineInputError("points", "must be between 2 and 10000");
   const flows: number[] = [];
   for (let i = 0; i < n; i++) flows.push(flowMin + ((flowMax - flowMin) * i) / (n - 1));
   // Each warning once per source: the prepared system's own (the same objects at every flow) once each, a run's
-  // once per code and parameter of that run (two runs out of the same range each keep their warning).
+  // once per code and parameter of that run (two runs out of the same range each keep their warning). Under Darcy the
+  // transition's is judged from its band's flows instead (transitionBandWarning), whatever flows the grid samples.
+  const darcy = sys.lossModel === "darcy";
   const seen = new Set<unknown>();
   const warnings: EngineWarning[] = [];
   const note = (key: unknown, w: () => EngineWarning) => {
@@ -352,7 +365,9 @@ export function systemCurve(
     for (const w of sys.warnings) note(w, () => w);
     for (const [side, results, runs] of [["suction", r.suctionRuns, sys.suction], ["discharge", r.dischargeRuns, sys.discharge]] as const) {
       results.forEach((res, i) => {
-        for (const w of res.warnings) note(`${side}[${i}]|${w.code}|${w.parameter ?? ""}`, () => runWarning(runs[i], w));
+        for (const w of res.warnings) {
+          if (!(darcy && w.code === "transition-flow")) note(`${side}[${i}]|${w.code}|${w.parameter ?? ""}`, () => runWarning(runs[i], w));
+        }
       });
     }
     return r.head;
@@ -364,6 +379,13 @@ export function systemCurve(
     maxNew: at({ level: "max", roughness: "new" }),
     maxAged: at({ level: "max", roughness: "aged" }),
   };
+  if (darcy) {
+    const corr = findCorrelation(sys.frictionMethod) as DarcyCorrelation;
+    for (const r of [...sys.suction, ...sys.discharge]) {
+      const w = transitionBandWarning(r, sys.fluid.kinematicViscosity, corr, { flowMin, flowMax }, duty);
+      if (w) warnings.push(runWarning(r, w));
+    }
+  }
   const rg = sys.fluid.density * G0;
   const all = [corners.minNew, corners.minAged, corners.maxNew, corners.maxAged];
   const low = flows.map((_, i) => Math.min(...all.map((c) => c[i])));

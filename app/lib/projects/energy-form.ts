@@ -11,7 +11,7 @@ type FormLike = { get(name: string): FormDataEntryValue | null };
  * Reads the energy fields. A form without them (an older page, a script) keeps the stored settings
  * (`current`), else the defaults. Ranges are checked by the schema (EnergySettingsSchema).
  */
-export function readEnergyForm(f: FormLike, errors: Record<string, string>, current?: EnergySettings): EnergySettings {
+export function readEnergyForm(f: FormLike, errors: Record<string, string>, current?: EnergySettings, formSteps: number[] = []): EnergySettings {
   const base = current ?? DEFAULT_ENERGY_SETTINGS;
   if (f.get("energy.control") == null) return { ...base };
   const control = String(f.get("energy.control")) as EnergySettings["control"];
@@ -26,6 +26,7 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
         errors[`energy.step.${i}.${pct == null ? "pct" : "hours"}`] ??= "Give both the flow (%) and the hours of this step, or neither.";
         continue;
       }
+      formSteps.push(i); // the form row of this profile step (blank rows are left out): where its issues are said
       profile.push({ flowFraction: pct / 100, hours });
     }
   }
@@ -43,10 +44,13 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
   };
 }
 
-/** Form field of a schema issue inside `energy` (path after "energy"). */
-export function energyField(path: unknown[]): string {
+/**
+ * Form field of a schema issue inside `energy` (path after "energy"). `formStep` gives the form row of profile step K
+ * (readEnergyForm leaves blank rows out, so step K of the document need not be row K); by default the same K.
+ */
+export function energyField(path: unknown[], formStep: (k: number) => number | undefined = (k) => k): string {
   const [b, c, d] = path;
-  if (b === "profile") return typeof c === "number" ? `energy.step.${c}.${d === "hours" ? "hours" : "pct"}` : "energy.profileKind";
+  if (b === "profile") return typeof c === "number" ? `energy.step.${formStep(c) ?? c}.${d === "hours" ? "hours" : "pct"}` : "energy.profileKind";
   if (b === "discountRate") return "energy.discount";
   return `energy.${String(b ?? "control")}`;
 }

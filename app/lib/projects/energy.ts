@@ -36,7 +36,7 @@ export const MAX_LCC_YEARS = 50;
 
 export const DutyStepSchema = v.object({
   flowFraction: v.pipe(num("Flow fraction"), v.gtValue(0, "A step's flow must be above 0 %."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
-  hours: v.pipe(num("Hours"), v.minValue(0, "Hours cannot be negative."), v.maxValue(8784, "A year has at most 8784 hours.")),
+  hours: v.pipe(num("Hours"), v.minValue(0, "Hours cannot be negative."), v.maxValue(8784, "A year has at most 8784 hours (a leap year: 366 days × 24 h).")),
 });
 
 export const EnergySettingsSchema = v.pipe(
@@ -49,8 +49,38 @@ export const EnergySettingsSchema = v.pipe(
     escalation: v.pipe(num("Tariff escalation"), v.minValue(-0.5, "Escalation at least −50 % a year."), v.maxValue(1, "Escalation at most 100 % a year.")),
     discountRate: v.pipe(num("Discount rate"), v.minValue(0, "Discount rate at least 0 %."), v.maxValue(1, "Discount rate at most 100 % a year.")),
   }),
-  v.check((s) => !s.profile || s.profile.reduce((t, x) => t + x.hours, 0) <= 8784, "The steps add up to more than a year (8784 h)."),
+  v.rawCheck(({ dataset, addIssue }) => {
+    if (!dataset.typed || !dataset.value.profile) return;
+    const s = dataset.value;
+    const profile = s.profile!;
+    const k = stepPastYear(profile);
+    if (k < 0) return;
+    // On the hours of the step where the running total passes the year (the form's field), not on the control mode.
+    addIssue({
+      message: stepsOverYear(profile, k),
+      path: [
+        { type: "object", origin: "value", input: s, key: "profile", value: profile },
+        { type: "array", origin: "value", input: profile, key: k, value: profile[k] },
+        { type: "object", origin: "value", input: profile[k], key: "hours", value: profile[k].hours },
+      ],
+    });
+  }),
 );
+
+/** Hours in a year at most: a leap year, 366 days × 24 h. */
+export const HOURS_PER_YEAR_MAX = 366 * 24;
+/** The first step where the running total of hours passes a year (HOURS_PER_YEAR_MAX), or −1. */
+export function stepPastYear(profile: readonly { hours: number }[]): number {
+  let t = 0;
+  return profile.findIndex((x) => (t += x.hours) > HOURS_PER_YEAR_MAX);
+}
+const hoursText = (h: number) => `${Number(h.toFixed(2))} h`;
+/** Why the steps do not fit in a year, with the rule and the numbers (k: the step where the running total passes it). */
+export function stepsOverYear(profile: readonly { hours: number }[], k: number): string {
+  const total = profile.reduce((t, x) => t + x.hours, 0);
+  const upTo = profile.slice(0, k + 1).reduce((t, x) => t + x.hours, 0);
+  return `The steps add up to ${hoursText(total)} a year, more than a year has: at most ${hoursText(HOURS_PER_YEAR_MAX)}, a leap year's 366 days × 24 h. With this step they reach ${hoursText(upTo)}; take hours off the steps.`;
+}
 export type EnergySettings = v.InferOutput<typeof EnergySettingsSchema>;
 
 /** Example values, to be set per project: 15 years, tariff +3 %/year, discount 5 %/year (common practice orders of magnitude). */

@@ -31,9 +31,11 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 
 export * from "./system-input";
 export * from "./candidate-input";
+export * from "./duty-check";
+import { dutyCheckOf, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
 import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
-import { fmtNumExact, fmtPctSignedExact, qt, qtExact, qtPair } from "~/engine/quantityText";
+import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
 
@@ -69,43 +71,6 @@ export type SystemEvaluation = {
   dutyCheck: DutyCheck | null;
 };
 
-export type DutyCheck = {
-  typedHead: number;
-  /** System head at the duty flow on the design curve (nominal level, new pipe) and at the governing edge, m. */
-  designHead: number;
-  governingHead: number;
-  governingEdge: string;
-  /** (typed − governing)/governing, fraction; null where the system needs no pump head there (governing ≤ 0: downhill). */
-  difference: number | null;
-  /** More than 3 % apart (common practice: a duty read off a different curve). */
-  differs: boolean;
-  message: string;
-  /** Which head each solve uses, in words. */
-  governs: string;
-};
-
-/** Typed duty head against the system at the duty flow; 3 % threshold (common practice). */
-export const DUTY_HEAD_THRESHOLD = 0.03;
-
-export function dutyCheckOf(input: SystemInput, prepared: ReturnType<typeof prepareSystem>): DutyCheck | null {
-  if (!input.duty) return null;
-  const designHead = systemHeadFunction(prepared)(input.duty.flow);
-  const governingHead = systemHeadFunction(prepared, GOVERNING_CASE)(input.duty.flow);
-  const edge = governingName(input.mode);
-  // Downhill (the system's head at the duty flow ≤ 0): gravity alone delivers the duty, so a percentage of it means nothing.
-  const downhill = governingHead <= 0;
-  const difference = downhill ? null : (input.duty.head - governingHead) / governingHead;
-  const differs = difference === null || Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
-  const q = qt("flow", input.duty.flow);
-  const message = difference === null
-    ? `The system needs no pump head at ${q}: its head there is ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve), so gravity alone delivers the duty flow; the typed duty head ${qt("head", input.duty.head)} is more than the system uses. Check the levels, or whether a pump is needed at this flow.`
-    : differs
-    ? `The typed duty head ${qt("head", input.duty.head)} differs by ${fmtPctSignedExact(difference, [DUTY_HEAD_THRESHOLD])} from the system's head at ${q}: ${qt("head", governingHead)} at ${edge} (${qt("head", designHead)} on the design curve). More than 3 % apart: check the duty or the pipe runs.`
-    : `The typed duty head ${qt("head", input.duty.head)} agrees within 3 % with the system's ${qt("head", governingHead)} at ${q} (${edge}).`;
-  const governs = `Speed and trim solves and the verdicts use the system's head at the duty flow (${qt("head", governingHead)}, ${edge}); the pump search uses the typed duty head (${qt("head", input.duty.head)}).`;
-  return { typedHead: input.duty.head, designHead, governingHead, governingEdge: edge, difference, differs, message, governs };
-}
-
 const wText = (w: EngineWarning[]) => w.map((x) => x.message);
 
 /**
@@ -128,7 +93,7 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
   const spec = systemSpec(input);
   const prepared = prepareSystem(spec);
   const flowMax = opts.flowMax ?? flowMaxOf(input);
-  const curve = systemCurve(prepared, { flowMax, points: opts.points ?? 41 });
+  const curve = systemCurve(prepared, { flowMax, points: opts.points ?? 41, duty: input.duty?.flow });
   const dutyFlow = input.duty?.flow ?? flowMax / 1.6;
   const fluid = prepared.fluid;
   const warnings: string[] = [];

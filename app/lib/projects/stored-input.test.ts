@@ -31,13 +31,13 @@ describe("readStoredInput", () => {
   test("the schema's own sentences are kept, the stored number as a quantity token (rendered in the reader's units)", () => {
     expect(problems(doc({ temperatureC: 350 }))[0]).toMatchObject({ label: "temperature", message: "Temperature above ⟦temperature|300⟧?", stored: "⟦temperature|350⟧" }); // schema: at most 300 °C
   });
-  test("a roughness not below its run's inner diameter (ε/D ≥ 1, no friction factor: engine headLoss.ts) is named at the run and field, with the value stored there", () => {
+  test("a roughness not below half its run's inner diameter (ε ≥ D/2, the bore closed: engine system.ts) is named at the run and field, with the value stored there", () => {
     const runs = defaultSystemInput().runs.map((r) => ({ ...r }));
     runs[1] = { ...runs[1], diameter: 0.001, agedRoughness: 0.005 }; // the hunt's case: ε/D = 5
     const p = problems(doc({ runs }));
     expect(p).toHaveLength(1);
     expect(p[0]).toMatchObject({ path: "runs.1.agedRoughness", label: "pipe run 2, aged roughness", stored: "⟦roughness|0.005⟧" });
-    expect(p[0].message).toBe("Aged roughness ⟦roughness|0.005⟧ is not below the inner diameter ⟦diameter|0.001⟧: check the unit of each.");
+    expect(p[0].message).toBe("Aged roughness ⟦roughness|0.005⟧ is not below half the inner diameter ⟦diameter|0.001⟧ (⟦roughness|0.0005⟧): wall roughness that high would close the bore, which is physically meaningless. Check the unit of each.");
     expect(problemFieldErrors(p)).toEqual({ "run.1.agedRoughness": `${p[0].message} Stored: ⟦roughness|0.005⟧.` });
     runs[1] = { ...runs[1], roughness: 0.001 }; // equal to the diameter: ε/D = 1, refused too
     expect(problems(doc({ runs })).map((x) => x.path)).toEqual(["runs.1.roughness", "runs.1.agedRoughness"]);

@@ -70,13 +70,13 @@ describe("roughness refused at its field", () => {
     const r = read({ "run.0.roughness": "0.1" }); // plastics aged 0.01 mm
     expect(r.errors["run.0.agedRoughness"]).toBe("Left blank, the aged roughness is PVC / plastics's 0.010 mm, below the new 0.100 mm typed: type an aged roughness of at least 0.100 mm.");
   });
-  it("a roughness not below the inner diameter (ε/D ≥ 1: the engine has no friction factor) is said at the run's field, not thrown as ε/D", () => {
+  it("a roughness not below half the inner diameter (ε ≥ D/2: the bore closed) is said at the run's field, not thrown as ε/D", () => {
     const typed = { "run.0.table": "", "run.0.diameter": "1", "run.0.material": "steel" }; // 1 mm bore
     const r = read({ ...typed, "run.0.agedRoughness": "5" });
     expect(r.input).toBeNull();
-    expect(r.errors).toEqual({ "run.0.agedRoughness": "Aged roughness 5.00 mm is not below the inner diameter 1.00 mm: check the unit of each." });
-    expect(read({ ...typed, "run.0.roughness": "1", "run.0.agedRoughness": "2" }).errors["run.0.roughness"]).toBe("Roughness 1.00 mm is not below the inner diameter 1.00 mm: check the unit of each.");
-    expect(read({ ...typed, "run.0.agedRoughness": "0.9" }).errors).toEqual({});
+    expect(r.errors).toEqual({ "run.0.agedRoughness": "Aged roughness 5.00 mm is not below half the inner diameter 1.00 mm (0.500 mm): wall roughness that high would close the bore, which is physically meaningless. Check the unit of each." });
+    expect(read({ ...typed, "run.0.roughness": "0.5", "run.0.agedRoughness": "2" }).errors["run.0.roughness"]).toBe("Roughness 0.500 mm is not below half the inner diameter 1.00 mm (0.500 mm): wall roughness that high would close the bore, which is physically meaningless. Check the unit of each.");
+    expect(read({ ...typed, "run.0.agedRoughness": "0.49" }).errors).toEqual({});
   });
 });
 

@@ -56,7 +56,10 @@ describe("readSystemForm: water outside the range its properties cover (engine f
   it("is refused at the temperature field when the form is sent, with what to do; 100 °C is taken, 100.1 °C is not; a user-defined fluid may be hotter", () => {
     const hot = read({ temperature: "100.1" }, SI_UNITS);
     expect(hot.input).toBeNull();
-    expect(hot.errors.temperature).toBe("Water is covered from 0.000 °C to 100 °C: for a temperature outside it, describe the liquid as a user-defined fluid.");
+    // The range's ends as typed ("0 °C", not "0.000 °C"), the value typed apart from them (100.1, not 100).
+    expect(hot.errors.temperature).toBe("Water is covered from 0 °C to 100 °C (the range its properties are computed for), not 100.1 °C: for a temperature outside it, describe the liquid as a user-defined fluid.");
+    // In °F: 0 °C = 32 °F, 100 °C = 212 °F (definition of the Fahrenheit scale); 213 °F typed.
+    expect(read({ temperature: "213" }).errors.temperature).toBe("Water is covered from 32 °F to 212 °F (the range its properties are computed for), not 213 °F: for a temperature outside it, describe the liquid as a user-defined fluid.");
     expect(read({ temperature: "100" }, SI_UNITS).input!.temperatureC).toBe(100);
     expect(read({ temperature: "-0.1" }, SI_UNITS).errors.temperature).toMatch(/^Water is covered/);
     const oil = read({ temperature: "120", fluidKind: "custom", fluidName: "Thermal oil", density: "900", viscosity: "0.01", vaporPressure: "0" }, SI_UNITS);

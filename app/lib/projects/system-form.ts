@@ -2,11 +2,11 @@
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
-import { qt, qtPair } from "~/engine/quantityText";
+import { qtExact, qtPair } from "~/engine/quantityText";
 import { countField, decimalField } from "../shared/decimal";
 import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessNotBelowDiameter, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -103,6 +103,10 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   // The form position (`run.N.`) each run of the document was read from: runs carry no id, and one ticked "remove on
   // save" is left out, so the document's run K is not the form's run K after it (fieldFor places refusals by this).
   const formRun: number[] = [];
+  // Runs (document positions) whose inner diameter could not be read (a size not in its table, a bad number): their
+  // field already says why, so the schema's checks against the stand-in 0 (diameter > 0, roughness below it) are not.
+  const noDiameter = new Set<number>();
+  const formStep: number[] = []; // the form row of each load-profile step (energy-form.ts)
   for (let i = 0; i < runCount; i++) {
     const p = `run.${i}.`;
     if (f.get(`${p}remove`) != null) continue;
@@ -140,8 +144,9 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
         : `Left blank, the aged roughness is ${m?.name ?? "the material"}'s ${aged}, below the new ${fresh} typed: type an aged roughness of at least ${fresh}.`;
     }
     for (const [key, label, e] of [["roughness", "Roughness", roughness], ["agedRoughness", "Aged roughness", agedRoughness]] as const) {
-      if (diameter != null && diameter > 0 && e >= diameter) errors[`${p}${key}`] ??= roughnessNotBelowDiameter(label, e, diameter);
+      if (diameter != null && diameter > 0 && !roughnessFits(e, diameter)) errors[`${p}${key}`] ??= roughnessNotBelowRadius(label, e, diameter);
     }
+    if (diameter == null) noDiameter.add(runs.length);
     const fittings = EDITOR_FITTINGS.map(([id, label]) => ({ id, count: countField(f.get(`${p}fit.${id}`), `${p}fit.${id}`, `the number of ${label.toLowerCase()}`, errors, MAX_FITTING_COUNT) ?? 0 })).filter((x) => x.count > 0);
     runs.push({
       side,
@@ -163,12 +168,21 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   const dutyHead = si("head", "dutyHead", "the duty head", true);
   // A field that already has its own message (text that is not a number) keeps it.
   if ((dutyFlow == null) !== (dutyHead == null)) errors[dutyFlow == null ? "dutyFlow" : "dutyHead"] ??= "Give both duty flow and head, or neither.";
+  const staticLow = si("head", "staticLow", "the static head at low level");
+  const staticHigh = si("head", "staticHigh", "the static head at high level");
+  const mode = f.get("mode") === "closed-loop" ? "closed-loop" : "open";
+  // Low level is the least lift, high level the most (the fields' hints; the engine refuses a band whose top is below its
+  // bottom, system.ts prepareSystem): a pair typed the other way round is refused at the field, never swapped unsaid.
+  if (mode === "open" && staticLow != null && staticHigh != null && staticHigh < staticLow) {
+    const [high, low] = qtPair("head", staticHigh, staticLow);
+    errors.staticHigh ??= `The static head at high level, ${high}, is below the one at low level, ${low}: high level is the most lift and low level the least, so high must be at least low. Swap them, or type the same value in both for one level.`;
+  }
   const raw = {
     fluid,
     temperatureC,
-    mode: f.get("mode") === "closed-loop" ? "closed-loop" : "open",
-    staticLow: si("head", "staticLow", "the static head at low level") ?? 0,
-    staticHigh: si("head", "staticHigh", "the static head at high level") ?? 0,
+    mode,
+    staticLow: staticLow ?? 0,
+    staticHigh: staticHigh ?? 0,
     pressureDifference: si("pressure", "pressureDifference", "the pressure difference", true) ?? 0,
     controlHead: si("head", "controlHead", "the control head", true) ?? 0,
     suctionSurfacePressure: si("pressure", "suctionSurfacePressure", "the suction surface pressure") ?? 101325,
@@ -184,19 +198,22 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
       minus: (readNumber(f, "tolMinus", errors, { label: "the flow tolerance below the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.minus * 100) / 100,
       plus: (readNumber(f, "tolPlus", errors, { label: "the flow tolerance above the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.plus * 100) / 100,
     },
-    energy: readEnergyForm(f, errors),
+    energy: readEnergyForm(f, errors, undefined, formStep),
   };
   // Water's properties are tabulated for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
   // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would need
   // review before anything is computed from it, stored-input.ts.)
   if (raw.fluid.kind === "water" && (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max)) {
-    errors.temperature ??= `Water is covered from ${qt("temperature", WATER_RANGE_C.min)} to ${qt("temperature", WATER_RANGE_C.max)}: for a temperature outside it, describe the liquid as a user-defined fluid.`;
+    // The range's ends as typed in the user's unit ("0 °C", "32 °F"; a token would read "0.000 °C").
+    const end = (c: number) => `${show(sys, "temperature", c)} ${labelOf(sys, "temperature")}`;
+    errors.temperature ??= `Water is covered from ${end(WATER_RANGE_C.min)} to ${end(WATER_RANGE_C.max)} (the range its properties are computed for), not ${qtExact("temperature", temperatureC, [WATER_RANGE_C.min, WATER_RANGE_C.max])}: for a temperature outside it, describe the liquid as a user-defined fluid.`;
   }
   const r = v.safeParse(SystemInputSchema, raw);
   if (!r.success) {
     for (const issue of r.issues) {
       const path = (issue.path ?? []).map((x) => x.key);
-      errors[fieldFor(path, (k) => formRun[k])] ??= issue.message;
+      if (path[0] === "runs" && noDiameter.has(path[1] as number) && (path[2] === "diameter" || issue.type === "check")) continue;
+      errors[fieldFor(path, (k) => formRun[k], (k) => formStep[k])] ??= issue.message;
     }
   }
   return { input: r.success && Object.keys(errors).length === 0 ? r.output : null, name, errors: renderDeep(errors, sys) };
@@ -209,7 +226,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
  * the editor's run K, as `editorInput` keeps every run at its index). A run with no form position (one being added) is the
  * runs' as a whole.
  */
-export function fieldFor(path: unknown[], formRun: (k: number) => number | undefined = (k) => k): string {
+export function fieldFor(path: unknown[], formRun: (k: number) => number | undefined = (k) => k, formStep?: (k: number) => number | undefined): string {
   const [a, b, c] = path;
   if (a === "runs" && typeof b === "number") {
     const i = formRun(b);
@@ -221,7 +238,7 @@ export function fieldFor(path: unknown[], formRun: (k: number) => number | undef
   if (a === "fluid") return b === "dynamicViscosity" ? "viscosity" : String(b);
   if (a === "temperatureC") return "temperature";
   if (a === "flowTolerance") return b === "minus" ? "tolMinus" : "tolPlus";
-  if (a === "energy") return energyField(path.slice(1));
+  if (a === "energy") return energyField(path.slice(1), formStep);
   return String(a ?? "_form");
 }
 

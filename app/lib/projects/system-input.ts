@@ -2,7 +2,7 @@
 // schema, the defaults of a new system and run, and what the engine needs from it (fluid, system
 // spec, the flow range to draw). Pure.
 import * as v from "valibot";
-import { fluidAt, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
+import { fluidAt, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, ROUGHNESS_MAX_OF_DIAMETER, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
 import { qt, qtPair } from "~/engine/quantityText";
@@ -24,14 +24,19 @@ export const FittingUseSchema = v.object({
   count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(MAX_FITTING_COUNT)),
 });
 
-/** Roughness (new or aged) must stay below the run's inner diameter: ε/D ≥ 1 has no friction factor (engine headLoss.ts). The words of the schema and the editor's field. */
-export const roughnessNotBelowDiameter = (label: string, roughness: number, diameter: number) =>
-  `${label} ${qt("roughness", roughness)} is not below the inner diameter ${qt("diameter", diameter)}: check the unit of each.`;
+/**
+ * Roughness (new or aged) must stay below half the run's inner diameter (the engine's ROUGHNESS_MAX_OF_DIAMETER, system.ts):
+ * bumps that high would close the bore. The words of the schema and the editor's field, with both numbers.
+ */
+export const roughnessNotBelowRadius = (label: string, roughness: number, diameter: number) =>
+  `${label} ${qt("roughness", roughness)} is not below half the inner diameter ${qt("diameter", diameter)} (${qt("roughness", diameter * ROUGHNESS_MAX_OF_DIAMETER)}): wall roughness that high would close the bore, which is physically meaningless. Check the unit of each.`;
+/** Whether a roughness is below half an inner diameter (the rule of {@link roughnessNotBelowRadius}). */
+export const roughnessFits = (roughness: number, diameter: number) => roughness < diameter * ROUGHNESS_MAX_OF_DIAMETER;
 const belowDiameter = (key: "roughness" | "agedRoughness", label: string) =>
   v.forward(
     v.check<PipeRunShape, (i: v.CheckIssue<PipeRunShape>) => string>(
-      (r) => r[key] < r.diameter,
-      (i) => roughnessNotBelowDiameter(label, i.input[key], i.input.diameter),
+      (r) => roughnessFits(r[key], r.diameter),
+      (i) => roughnessNotBelowRadius(label, i.input[key], i.input.diameter),
     ),
     [key],
   );
@@ -86,7 +91,7 @@ export const SystemInputSchema = v.object({
   duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
   /** Largest flow drawn, m³/s (0: from the duty). */
   flowMax: nonNeg("Largest flow"),
-  hoursPerYear: v.pipe(nonNeg("Operating hours"), v.maxValue(8784, "A year has at most 8784 hours.")),
+  hoursPerYear: v.pipe(nonNeg("Operating hours"), v.maxValue(8784, "A year has at most 8784 hours (a leap year: 366 days × 24 h).")),
   tariffPerKWh: nonNeg("Energy tariff"),
   /** Required NPSH margin ratio NPSHa/NPSHr (dimensionless). */
   npshMargin: v.pipe(num("NPSH margin"), v.minValue(1, "The NPSH margin ratio is at least 1.")),
@@ -206,6 +211,7 @@ function runSpec(r: PipeRunInput): PipeRunSpec {
 }
 
 export function systemSpec(input: SystemInput): SystemSpec {
+  // The editor refuses a high level below the low one (system-form.ts); a document stored before that is read least to most.
   const lo = Math.min(input.staticLow, input.staticHigh);
   const hi = Math.max(input.staticLow, input.staticHigh);
   return {

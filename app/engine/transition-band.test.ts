@@ -1,0 +1,56 @@
+// The transition warning of a system curve, judged from the band's own flows (Q = Re·ν·π·D/4 at Re 2000 and 4000),
+// not from the first grid flow that fell in it. Check values: Re = 4Q/(π·D·ν) (definition); water's ν at 0 °C
+// 1.7918e-6 m²/s and 20 °C 1.0034e-6 m²/s (IAPWS, the engine's fluids.ts); the default system's suction run, 5 m of
+// 0.1 m steel (app/lib/projects/system-input.ts).
+import { describe, expect, it } from "vitest";
+import { fluidAt } from "./fluids.ts";
+import { systemCurve, type SystemSpec } from "./system.ts";
+import { inSI } from "./quantityText.ts";
+
+const spec = (tC: number, method?: SystemSpec["frictionMethod"]): SystemSpec => ({
+  fluid: fluidAt({ kind: "water" }, tC),
+  staticHead: 10,
+  suction: [{ name: "Suction line", length: 5, diameter: 0.1, roughness: 0.045e-3 }],
+  frictionMethod: method,
+});
+const transition = (s: SystemSpec, points: number, duty?: number) =>
+  systemCurve(s, { flowMax: 0.016, points, duty }).warnings.filter((w) => w.code === "transition-flow").map((w) => inSI(w.message));
+
+describe("the transition warning over a system curve", () => {
+  it("names the band's flows and says the duty is above it (0 °C, duty 0.01 m³/s at Re ≈ 71 000)", () => {
+    const nu = fluidAt({ kind: "water" }, 0).kinematicViscosity;
+    const low = (2000 * nu * Math.PI * 0.1) / 4, high = (4000 * nu * Math.PI * 0.1) / 4; // Q = Re·ν·π·D/4
+    const [w, ...rest] = transition(spec(0), 41, 0.01);
+    expect(rest).toEqual([]);
+    // The SI preset shows flow in m³/h: 2.815e-4 m³/s = 1.01 m³/h, 5.63e-4 m³/s = 2.03 m³/h, 0.01 m³/s = 36.0 m³/h.
+    expect(low * 3600).toBeCloseTo(1.01, 2);
+    expect(high * 3600).toBeCloseTo(2.03, 2);
+    expect(w).toMatch(/^Suction line: flows from 1\.01 m³\/h to 2\.03 m³\/h \(Re 2000–4000, Q = Re·ν·π·D\/4 with D = 100 mm\) are in the laminar–turbulent transition/);
+    expect(Math.round((4 * 0.01) / (Math.PI * 0.1 * nu))).toBe(71050); // the duty's Re, as the edge hunt found it
+    expect(w).toContain("the duty flow 36.0 m³/h (Re = 71050) is above it, turbulent: only the curve below 2.03 m³/h is affected.");
+    expect(w).not.toMatch(/Re = 2842\b/); // the old warning's number: the first grid flow (0.0004 m³/s) in the band
+  });
+  it("is the same whatever the grid: 41 points at 0 °C and at 20 °C (the grid's first flow was in the band at 0 °C only), 2 and 1000 points", () => {
+    for (const t of [0, 20]) {
+      const ref = transition(spec(t), 41, 0.01);
+      expect(ref).toHaveLength(1);
+      for (const n of [2, 7, 1000]) expect(transition(spec(t), n, 0.01)).toEqual(ref);
+    }
+  });
+  it("a duty in the band is said to be in it, and the method's figures are at its Re", () => {
+    const nu = fluidAt({ kind: "water" }, 20).kinematicViscosity;
+    const duty = (3000 * nu * Math.PI * 0.1) / 4; // Re 3000
+    const [w] = transition(spec(20), 41, duty);
+    expect(w).toContain("(Re = 3000) is in it.");
+    expect(w).toContain("At Re = 3000 (the duty): Colebrook");
+  });
+  it("Churchill away from the duty: judged at the band's lowest Re drawn (2000), where it is below the turbulent value", () => {
+    const [w] = transition(spec(20, "churchill"), 41, 0.01);
+    expect(w).toContain("At Re = 2000: Churchill");
+    expect(w).toContain("not the conservative side");
+  });
+  it("a curve that ends below the band has none (the band starts at 0.000158 m³/s at 20 °C)", () => {
+    const c = systemCurve(spec(20), { flowMax: 0.00015, points: 41 });
+    expect(c.warnings.filter((w) => w.code === "transition-flow")).toEqual([]);
+  });
+});
