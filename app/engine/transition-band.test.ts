@@ -5,6 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { fluidAt } from "./fluids.ts";
 import { systemCurve, type SystemSpec } from "./system.ts";
+import { TRANSITION_DUTY_FRACTION } from "./transitionText.ts";
 import { inSI } from "./quantityText.ts";
 
 const spec = (tC: number, method?: SystemSpec["frictionMethod"]): SystemSpec => ({
@@ -16,36 +17,48 @@ const spec = (tC: number, method?: SystemSpec["frictionMethod"]): SystemSpec => 
 const transition = (s: SystemSpec, points: number, duty?: number) =>
   systemCurve(s, { flowMax: 0.016, points, duty }).warnings.filter((w) => w.code === "transition-flow").map((w) => inSI(w.message));
 
+// The duty flow at a Reynolds number in the default suction run (Q = Re·ν·π·D/4), m³/s.
+const dutyAtRe = (re: number, tC: number) => (re * fluidAt({ kind: "water" }, tC).kinematicViscosity * Math.PI * 0.1) / 4;
+
 describe("the transition warning over a system curve", () => {
-  it("names the band's flows and says the duty is above it (0 °C, duty 0.01 m³/s at Re ≈ 71 000)", () => {
+  it("names the band's flows and says the duty is above it (0 °C, duty at Re 6000: the band's top is 2/3 of it)", () => {
     const nu = fluidAt({ kind: "water" }, 0).kinematicViscosity;
     const low = (2000 * nu * Math.PI * 0.1) / 4, high = (4000 * nu * Math.PI * 0.1) / 4; // Q = Re·ν·π·D/4
-    const [w, ...rest] = transition(spec(0), 41, 0.01);
+    const duty = dutyAtRe(6000, 0);
+    const [w, ...rest] = transition(spec(0), 41, duty);
     expect(rest).toEqual([]);
-    // The SI preset shows flow in m³/h: 2.815e-4 m³/s = 1.01 m³/h, 5.63e-4 m³/s = 2.03 m³/h, 0.01 m³/s = 36.0 m³/h.
+    // The SI preset shows flow in m³/h: 2.815e-4 m³/s = 1.01 m³/h, 5.63e-4 m³/s = 2.03 m³/h.
     expect(low * 3600).toBeCloseTo(1.01, 2);
     expect(high * 3600).toBeCloseTo(2.03, 2);
     expect(w).toMatch(/^Suction line: flows from 1\.01 m³\/h to 2\.03 m³\/h \(Re 2000–4000, Q = Re·ν·π·D\/4 with D = 100 mm\) are in the laminar–turbulent transition/);
-    expect(Math.round((4 * 0.01) / (Math.PI * 0.1 * nu))).toBe(71050); // the duty's Re, as the edge hunt found it
-    expect(w).toContain("the duty flow 36.0 m³/h (Re = 71050) is above it, turbulent: only the curve below 2.03 m³/h is affected.");
-    expect(w).not.toMatch(/Re = 2842\b/); // the old warning's number: the first grid flow (0.0004 m³/s) in the band
+    expect(w).toContain("the duty flow 3.04 m³/h (Re = 6000) is above it, turbulent: only the curve below 2.03 m³/h (66.7 % of the duty flow; warned from 50 % of it) is affected.");
   });
-  it("is the same whatever the grid: 41 points at 0 °C and at 20 °C (the grid's first flow was in the band at 0 °C only), 2 and 1000 points", () => {
+  it("with the duty far above the band there is none: the default suction run at 0 °C, duty 0.01 m³/s at Re ≈ 71 000 (the edge hunt's case, warned 'Re = 2842' at the grid's first flow)", () => {
+    const nu = fluidAt({ kind: "water" }, 0).kinematicViscosity;
+    expect(Math.round((4 * 0.01) / (Math.PI * 0.1 * nu))).toBe(71050); // the duty's Re, as the edge hunt found it
+    for (const n of [2, 41, 1000]) expect(transition(spec(0), n, 0.01)).toEqual([]);
+    // Without a duty, a curve from zero flow crosses the band: warned.
+    expect(transition(spec(0), 41)).toHaveLength(1);
+  });
+  it(`flips where the band's top (Re 4000) is ${TRANSITION_DUTY_FRACTION * 100} % of the duty flow: duty at Re 8000 × (1 ∓ 1e-6)`, () => {
+    expect(transition(spec(20), 41, dutyAtRe(8000 * (1 - 1e-6), 20))).toHaveLength(1);
+    expect(transition(spec(20), 41, dutyAtRe(8000 * (1 + 1e-6), 20))).toEqual([]);
+  });
+  it("is the same whatever the grid: 41 points at 0 °C and at 20 °C (the grid's first flow was in the band at 0 °C only), 2, 7 and 1000 points", () => {
     for (const t of [0, 20]) {
-      const ref = transition(spec(t), 41, 0.01);
+      const duty = dutyAtRe(6000, t);
+      const ref = transition(spec(t), 41, duty);
       expect(ref).toHaveLength(1);
-      for (const n of [2, 7, 1000]) expect(transition(spec(t), n, 0.01)).toEqual(ref);
+      for (const n of [2, 7, 1000]) expect(transition(spec(t), n, duty)).toEqual(ref);
     }
   });
   it("a duty in the band is said to be in it, and the method's figures are at its Re", () => {
-    const nu = fluidAt({ kind: "water" }, 20).kinematicViscosity;
-    const duty = (3000 * nu * Math.PI * 0.1) / 4; // Re 3000
-    const [w] = transition(spec(20), 41, duty);
+    const [w] = transition(spec(20), 41, dutyAtRe(3000, 20));
     expect(w).toContain("(Re = 3000) is in it.");
     expect(w).toContain("At Re = 3000 (the duty): Colebrook");
   });
   it("Churchill away from the duty: judged at the band's lowest Re drawn (2000), where it is below the turbulent value", () => {
-    const [w] = transition(spec(20, "churchill"), 41, 0.01);
+    const [w] = transition(spec(20, "churchill"), 41, dutyAtRe(6000, 20));
     expect(w).toContain("At Re = 2000: Churchill");
     expect(w).toContain("not the conservative side");
   });

@@ -6,11 +6,18 @@
 import type { EngineWarning } from "./errors.ts";
 import { churchill, colebrook, laminar } from "./friction.ts";
 import type { DarcyCorrelation } from "./registry.ts";
-import { qt } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit, qt } from "./quantityText.ts";
 
 /** Upper Reynolds number of laminar flow, and lower of fully turbulent (common practice). */
 export const LAMINAR_MAX_RE = 2000;
 export const TURBULENT_MIN_RE = 4000;
+/**
+ * With a duty, the transition is warned only where it reaches this fraction of the duty flow (our rule): the flows a
+ * selection is judged at (the band's operating points, the usual part-load steps down to half flow) lie above it, and
+ * below it the friction head is under a quarter of the duty's (∝ Q²), so an uncertain f there moves little. Nearly every
+ * curve starts at zero flow and so crosses the transition somewhere; warning of that on every system says nothing.
+ */
+export const TRANSITION_DUTY_FRACTION = 0.5;
 
 const f3 = (x: number) => x.toPrecision(3);
 /** A Reynolds number as read: whole (as the warning at one flow writes it). */
@@ -64,7 +71,8 @@ export function transitionFlows(diameter: number, kinematicViscosity: number): {
 
 /**
  * The transition warning of one run over a curve's flows [flowMin, flowMax]: given when the band's flows
- * (Q at Re 2000 to 4000) overlap them, the same whatever the curve's sampling. Names the band's flows, where the duty
+ * (Q at Re 2000 to 4000) overlap them and, with a duty, reach {@link TRANSITION_DUTY_FRACTION} of its flow; the same
+ * whatever the curve's sampling. Names the band's flows, where the duty
  * flow is against them with its Re, and what the correlation gives at the duty's Re when it is in the band, else at
  * the band's lowest Re on the curve (for Churchill, the least conservative point). Null when no flow drawn is in it.
  * @param run.diameter inner diameter, m
@@ -83,6 +91,7 @@ export function transitionBandWarning(
 ): EngineWarning | null {
   const { low, high } = transitionFlows(run.diameter, kinematicViscosity);
   if (!(low < range.flowMax && high > range.flowMin)) return null;
+  if (duty != null && duty > 0 && high < TRANSITION_DUTY_FRACTION * duty) return null;
   const reAt = (q: number) => (4 * q) / (Math.PI * run.diameter * kinematicViscosity);
   const eD = run.roughness / run.diameter;
   const dutyIn = duty != null && duty > low && duty < high;
@@ -96,7 +105,7 @@ export function transitionBandWarning(
   if (duty != null && duty > 0) {
     const d = `the duty flow ${qt("flow", duty)} (Re = ${reText(reAt(duty))})`;
     where = dutyIn ? `; ${d} is in it`
-      : duty >= high ? `; ${d} is above it, turbulent: only the curve below ${qt("flow", high)} is affected`
+      : duty >= high ? `; ${d} is above it, turbulent: only the curve below ${qt("flow", high)} (${fmtPctExact(high / duty, [TRANSITION_DUTY_FRACTION])} of the duty flow; warned from ${fmtPctLimit(TRANSITION_DUTY_FRACTION)} of it) is affected`
       : `; ${d} is below it, laminar (64/Re)`;
   }
   return { code: "transition-flow", parameter: "reynolds", message: `${band}${where}. ${method}` };
