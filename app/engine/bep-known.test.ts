@@ -5,7 +5,7 @@
  * no POR verdict, and the warning says why. Curves below are made-up; the demo libraries' are invented (fixtures/demo).
  */
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, fluidAt, operatingFigures, type PumpPoint } from "./index.ts";
+import { createPumpCurve, fluidAt, maxShaftPower, operatingFigures, overloadCheck, type PumpPoint } from "./index.ts";
 import { inSI } from "./quantityText.ts";
 import { demoCurveInputs } from "./test/demoCurves.ts";
 
@@ -47,6 +47,10 @@ describe("no BEP claimed where none is known (B2)", () => {
     expect(w).toContain("BEP not published (efficiency given at one point only, 144 m³/h): no BEP position or preferred operating region is judged");
     expect(w.some((m) => m.includes("neither efficiency nor power"))).toBe(false);
     expect(w).toContain("curve gives efficiency or power at one point only (144 m³/h), too few to read it at another flow: power figures unavailable");
+    // The motor check beside it: no power anywhere, and not because the curve gives no efficiency.
+    const text = inSI(overloadCheck(maxShaftPower(c, water.density), 5500).text);
+    expect(text).not.toMatch(/neither power nor efficiency/);
+    expect(text).toBe("overload not judged: the curve gives power at no flow (no power or efficiency column of two points or more), motor rating × service factor 5.50 kW");
   });
   it("efficiency still rising at the last point: no BEP taken at the curve's end, and the figures say why", () => {
     const c = createPumpCurve({ points: [{ flow: 0.005, head: 40, efficiency: 0.5 }, { flow: 0.03, head: 20, efficiency: 0.72 }] });

@@ -177,7 +177,7 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
 export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null; text: string } {
   requirePositive("limit", limit);
   const lim = `motor rating × service factor ${qt("power", limit)}`;
-  if (!max) return { nonOverloading: null, warning: null, text: `overload not judged: the curve gives no power (neither power nor efficiency), ${lim}` };
+  if (!max) return { nonOverloading: null, warning: null, text: `overload not judged: the curve gives power at no flow (no power or efficiency column of two points or more), ${lim}` };
   const at = `${qtExact("power", max.power, [limit])} at ${qt("flow", max.flow)}`;
   if (!limitCovers(limit, max.power)) {
     const warning = `largest power on the curve ${qtExact("power", max.power, [limit])} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}`;
