@@ -38,7 +38,7 @@ export function viscosityLine(f: FrozenSelection): string | null {
   if (v.status === "outside-method" && v.b != null)
     return `ANSI/HI 9.6.7 parameter B = ${bText(v.b)}: above ${VISCOSITY_B_MAX}, outside the method's range; the curve is not corrected: its figures are the water curve's and overstate head, flow and efficiency on this liquid — ask the maker for the pump's performance on it (B ${at}; ${HI_VISCOSITY_SOURCE}).`;
   if (v.status === "no-bep" && v.b != null)
-    return `ANSI/HI 9.6.7 parameter B = ${bText(v.b)} at the operating point (above ${VISCOSITY_B_NO_CORRECTION}: correction needed), but the curve gives no efficiency, so no water BEP: the method cannot correct it and the figures are the water curve's (${HI_VISCOSITY_SOURCE}).`;
+    return `ANSI/HI 9.6.7 parameter B = ${bText(v.b)} at the operating point (above ${VISCOSITY_B_NO_CORRECTION}: correction needed), but the curve gives no water BEP (no efficiency, or none peaking inside its data): the method cannot correct it and the figures are the water curve's (${HI_VISCOSITY_SOURCE}).`;
   return `Pump curve not checked for viscosity: the ANSI/HI 9.6.7 parameter B needs the pump's speed and a flow and head at its BEP, which the curve does not give; the figures are the water curve's — check with the maker (${HI_VISCOSITY_SOURCE}).`;
 }
 

@@ -22,6 +22,35 @@ export type TrimLaw = "linear" | "square";
 /** Largest trim, as a fraction of the curve's diameter, before a flag (common practice). */
 export const MAX_TRIM_FRACTION = 0.2;
 
+/**
+ * Relative allowance for solver round-off wherever a ratio or diameter is held to a limit (dimensionless, 1 part in 10⁶):
+ * the trim and diameter flags here and every comparison of the verdict (verdict.ts) use this one value, so a pump the
+ * verdict finds inside the catalogue is never flagged outside it by its own curve's warnings, nor the other way round.
+ */
+export const LIMIT_ROUNDOFF = 1e-6;
+
+/** Speed or trim ratios the engine scales a curve by (dimensionless): beyond them head (∝ r²) and power (∝ r³) leave
+ * every real pump by factors of 10⁶ and 10⁹, and the scaled values underflow or overflow; the catalogue's own limits
+ * (verdict.ts) judge the ratios that make sense. Engine bound, not a rule of practice. */
+export const SCALE_RATIO_RANGE = { min: 1e-3, max: 1e3 } as const;
+
+function checkRatio(ratio: number): number {
+  const r = requirePositive("ratio", ratio);
+  if (r < SCALE_RATIO_RANGE.min || r > SCALE_RATIO_RANGE.max)
+    throw new EngineInputError("ratio", `must be between ${SCALE_RATIO_RANGE.min} and ${SCALE_RATIO_RANGE.max} (got ${r})`);
+  return r;
+}
+
+/** The scaled curve, or the refusal of its points named as the ratio's (a valid curve scaled by a valid ratio). */
+function scaledCurve(input: PumpCurveInput, r: number): PumpCurve {
+  try {
+    return createPumpCurve(input);
+  } catch (e) {
+    if (e instanceof EngineInputError) throw new EngineInputError("ratio", `scales the curve out of range (${e.parameter} ${e.reason}; got ${r})`);
+    throw e;
+  }
+}
+
 /** A curve scaled by speed or trim. */
 export interface ScaledCurve {
   /** The scaled, prepared curve. */
@@ -59,11 +88,11 @@ function scalePoints(points: readonly PumpPoint[], q: number, h: number, p: numb
  */
 export function scaleBySpeed(curve: PumpCurve | PumpCurveInput, ratio: number): ScaledCurve {
   const c = ensurePumpCurve(curve);
-  const r = requirePositive("ratio", ratio);
+  const r = checkRatio(ratio);
   const warnings = scaleWarningsSpeed(r);
   const input = inputOf(c);
-  const scaled = createPumpCurve({ ...input, points: scalePoints(c.points, r, r * r, r * r * r, r * r),
-    speed: c.speed !== null ? c.speed * r : undefined, riseTolerance: 1 });
+  const scaled = scaledCurve({ ...input, points: scalePoints(c.points, r, r * r, r * r * r, r * r),
+    speed: c.speed !== null ? c.speed * r : undefined, riseTolerance: 1 }, r);
   return { curve: scaled, ratio: r, warnings };
 }
 
@@ -75,14 +104,15 @@ function trimExponents(law: TrimLaw): { q: number; p: number } {
 
 function trimWarnings(c: PumpCurve, ratio: number): EngineWarning[] {
   const w: EngineWarning[] = [{ code: "trim-approximate", message: "impeller trim scaling is approximate; confirm with the manufacturer's trimmed curve" }];
-  if (ratio < 1 - MAX_TRIM_FRACTION) w.push({ code: "large-trim", parameter: "ratio",
+  const eps = LIMIT_ROUNDOFF;
+  if (ratio < (1 - MAX_TRIM_FRACTION) * (1 - eps)) w.push({ code: "large-trim", parameter: "ratio",
     message: `trim of ${fmtPctExact(1 - ratio, [MAX_TRIM_FRACTION])} exceeds ${fmtPctLimit(MAX_TRIM_FRACTION)}: prediction unreliable` });
-  if (ratio > 1) w.push({ code: "diameter-increase", parameter: "ratio", message: "diameter above the curve's impeller: check the model's maximum" });
+  if (ratio > 1 + eps) w.push({ code: "diameter-increase", parameter: "ratio", message: "diameter above the curve's impeller: check the model's maximum" });
   if (c.impellerDiameter !== null) {
     const d = c.impellerDiameter * ratio;
-    if (c.minDiameter !== null && d < c.minDiameter * (1 - 1e-9)) w.push({ code: "below-min-diameter", parameter: "ratio",
+    if (c.minDiameter !== null && d < c.minDiameter * (1 - eps)) w.push({ code: "below-min-diameter", parameter: "ratio",
       message: `trimmed diameter ${qtPair("diameter", d, c.minDiameter).join(" is below the model's minimum ")}` });
-    if (c.maxDiameter !== null && d > c.maxDiameter * (1 + 1e-9)) w.push({ code: "above-max-diameter", parameter: "ratio",
+    if (c.maxDiameter !== null && d > c.maxDiameter * (1 + eps)) w.push({ code: "above-max-diameter", parameter: "ratio",
       message: `diameter ${qtPair("diameter", d, c.maxDiameter).join(" is above the model's maximum ")}` });
   }
   return w;
@@ -96,11 +126,11 @@ function trimWarnings(c: PumpCurve, ratio: number): EngineWarning[] {
  */
 export function scaleByTrim(curve: PumpCurve | PumpCurveInput, ratio: number, law: TrimLaw = "linear"): ScaledCurve {
   const c = ensurePumpCurve(curve);
-  const r = requirePositive("ratio", ratio);
+  const r = checkRatio(ratio);
   const e = trimExponents(law);
   const rq = Math.pow(r, e.q);
-  const scaled = createPumpCurve({ ...inputOf(c), points: scalePoints(c.points, rq, r * r, Math.pow(r, e.p), 1),
-    impellerDiameter: c.impellerDiameter !== null ? c.impellerDiameter * r : undefined, riseTolerance: 1 });
+  const scaled = scaledCurve({ ...inputOf(c), points: scalePoints(c.points, rq, r * r, Math.pow(r, e.p), 1),
+    impellerDiameter: c.impellerDiameter !== null ? c.impellerDiameter * r : undefined, riseTolerance: 1 }, r);
   return { curve: scaled, ratio: r, warnings: trimWarnings(c, r) };
 }
 

@@ -177,7 +177,7 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
 export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOverloading: boolean | null; warning: string | null; text: string } {
   requirePositive("limit", limit);
   const lim = `motor rating × service factor ${qt("power", limit)}`;
-  if (!max) return { nonOverloading: null, warning: null, text: `overload not judged: the curve gives no power (neither power nor efficiency), ${lim}` };
+  if (!max) return { nonOverloading: null, warning: null, text: `overload not judged: the curve gives power at no flow (no power or efficiency column of two points or more), ${lim}` };
   const at = `${qtExact("power", max.power, [limit])} at ${qt("flow", max.flow)}`;
   if (!limitCovers(limit, max.power)) {
     const warning = `largest power on the curve ${qtExact("power", max.power, [limit])} exceeds motor rating × service factor ${qtLimit("power", limit, [max.power])}`;
@@ -190,6 +190,28 @@ export function overloadCheck(max: MaxShaftPower | null, limit: number): { nonOv
     return { nonOverloading: null, warning, text: `overload not judged: ${warning}` };
   }
   return { nonOverloading: true, warning: null, text: `non-overloading: largest power on the curve ${at} is within motor rating × service factor ${qtLimit("power", limit, [max.power])}` };
+}
+
+/**
+ * Why the curve gives no efficiency at a flow, in words with the flows: no efficiency or power at all, at one point only,
+ * or data that end before (or start after) the flow, with the range where they are known.
+ * @param c prepared curve (SI)
+ * @param flow the flow, m³/s
+ * @param powerKnown whether the shaft power is known there all the same (a power column that covers it) (a flag, unitless)
+ */
+function noEfficiencyText(c: PumpCurve, flow: number, powerKnown: boolean): string {
+  const col = c.efficiency ?? c.power;
+  const what = c.efficiency ? "efficiency" : "power";
+  if (!col) {
+    const one = c.points.find((p) => p.efficiency !== undefined || p.power !== undefined);
+    return one ? `curve gives efficiency or power at one point only (${qt("flow", one.flow)}), too few to read it at another flow: power figures unavailable`
+      : "curve gives neither efficiency nor power: power figures unavailable";
+  }
+  const lo = col.x[0], hi = col.x[col.x.length - 1];
+  const range = `known from ${qt("flow", lo)} to ${qt("flow", hi)}`;
+  const where = flow > hi ? `end at ${qtLimit("flow", hi, [flow])}, before this flow ${qtExact("flow", flow, [hi])}`
+    : flow < lo ? `start at ${qtLimit("flow", lo, [flow])}, after this flow ${qtExact("flow", flow, [lo])}` : `give none at ${qt("flow", flow)}`;
+  return `the curve's ${what} data ${where} (${range}): ${powerKnown ? "efficiency" : "efficiency and power figures"} unavailable at this flow`;
 }
 
 /**
@@ -210,7 +232,8 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
   const efficiency = efficiencyAt(c, flow);
   let shaftPower = shaftPowerAt(c, flow, rho);
   if (shaftPower === null && flow === 0) shaftPower = null;
-  if (efficiency === null) warnings.push({ code: "no-efficiency", message: "curve gives neither efficiency nor power: power figures unavailable" });
+  if (efficiency === null) warnings.push({ code: "no-efficiency", message: noEfficiencyText(c, flow, shaftPower !== null) });
+  if (!c.bep) for (const w of c.warnings) if (w.code === "bep-not-published") warnings.push(w);
   const bep = c.bep;
   const bepRatio = bep ? flow / bep.flow : null;
   const inPor = c.por ? flow >= c.por.min && flow <= c.por.max : null;

@@ -7,6 +7,20 @@
 import { EngineInputError, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 
+/**
+ * Most duty pumps, and most standby pumps, of one arrangement (count; engine bound). The project form takes 1–8 duty
+ * and 0–8 standby; the engine leaves room above it for other callers, but not past where combining identical curves
+ * means anything (a hundred pumps on one header are sized by its losses and their unequal sharing, not by n × Q;
+ * common practice) nor to counts whose n × Q or n × P lose precision or overflow.
+ */
+export const MAX_PUMPS = 100;
+
+const pumpCount = (name: string, v: unknown, min: number) => {
+  const n = requireInteger(name, v, min);
+  if (n > MAX_PUMPS) throw new EngineInputError(name, `must be at most ${MAX_PUMPS} (got ${n})`);
+  return n;
+};
+
 /** How pumps are combined. */
 export interface Arrangement {
   /** "parallel" or "series". */
@@ -35,8 +49,8 @@ export interface CombinedCurve {
 export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arrangement): CombinedCurve {
   const c = ensurePumpCurve(curve);
   if (!arrangement || typeof arrangement !== "object") throw new EngineInputError("arrangement", "is required");
-  const n = requireInteger("arrangement.duty", arrangement.duty, 1);
-  const standby = requireInteger("arrangement.standby", arrangement.standby ?? 0, 0);
+  const n = pumpCount("arrangement.duty", arrangement.duty, 1);
+  const standby = pumpCount("arrangement.standby", arrangement.standby ?? 0, 0);
   const mode = arrangement.mode;
   if (mode !== "parallel" && mode !== "series") throw new EngineInputError("arrangement.mode", "must be 'parallel' or 'series'");
   const points: PumpPoint[] = c.points.map((p) => {
@@ -61,17 +75,19 @@ export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arr
  * read there (efficiency, power, NPSHr) would be refused; the combined curve's end is the pump's end.
  * @param totalFlow combined flow, m³/s
  * @param arrangement mode and counts (unitless; counts dimensionless)
- * @param single one pump's curve (SI), optional
+ * @param single one pump's curve (prepared or raw; SI), optional
  */
-export function flowPerPump(totalFlow: number, arrangement: Arrangement, single?: PumpCurve): number {
+export function flowPerPump(totalFlow: number, arrangement: Arrangement, single?: PumpCurve | PumpCurveInput): number {
   const q = requireNonNegative("totalFlow", totalFlow);
   if (!arrangement || typeof arrangement !== "object") throw new EngineInputError("arrangement", "is required");
-  const n = requireInteger("arrangement.duty", arrangement.duty, 1);
+  const n = pumpCount("arrangement.duty", arrangement.duty, 1);
   const mode = arrangement.mode;
   if (mode !== "parallel" && mode !== "series") throw new EngineInputError("arrangement.mode", `must be 'parallel' or 'series' (got ${String(mode)})`);
+  // A raw curve is prepared (its flowMin/flowMax exist only once prepared; read off a raw one they were undefined → NaN).
+  const one = single == null ? undefined : ensurePumpCurve(single);
   if (mode === "series") return q;
   const share = q / n;
   // The combined curve's range as combinePumps builds it (each point's flow × n): the same products, so exact.
-  if (!single || q < single.flowMin * n || q > single.flowMax * n) return share;
-  return Math.min(single.flowMax, Math.max(single.flowMin, share));
+  if (!one || q < one.flowMin * n || q > one.flowMax * n) return share;
+  return Math.min(one.flowMax, Math.max(one.flowMin, share));
 }

@@ -14,7 +14,7 @@
  * A reported point where the curves do not actually meet (the system curve jumps across the pump's head,
  * as Darcy friction does at Re 2000) carries the warning `system-curve-jump` with both heads.
  */
-import { EngineInputError, requireFinite, requireFiniteResult, type EngineWarning } from "./errors.ts";
+import { EngineInputError, requireFinite, requireFiniteResult, requireInteger, type EngineWarning } from "./errors.ts";
 import { evalCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
@@ -55,7 +55,7 @@ export interface OperatingPointResult {
  * Solves pump curve against a system head function H_sys(Q).
  * @param curve pump curve (prepared or raw; flow m³/s, head m)
  * @param systemHead function flow m³/s → system head m
- * @param options.subdivisions samples per curve interval for bracketing (count, dimensionless; default 8)
+ * @param options.subdivisions samples per curve interval for bracketing (count, dimensionless; a whole number 1–10 000, default 8)
  * @param options.maxIterations Brent iteration cap per root (count, dimensionless; default 100)
  */
 export function solveOperatingPoint(
@@ -66,6 +66,12 @@ export function solveOperatingPoint(
   return requireFiniteResult("system", solveInner(curve, systemHead, options));
 }
 
+/**
+ * Most samples per curve interval `solveOperatingPoint` takes (count; engine bound): 10 000 per interval already
+ * resolves roots closer than a ten-thousandth of an interval apart, and the samples are held in memory at once.
+ */
+const MAX_SUBDIVISIONS = 10_000;
+
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
   systemHead: (flow: number) => number,
@@ -73,7 +79,9 @@ function solveInner(
 ): OperatingPointResult {
   const c = ensurePumpCurve(curve);
   if (typeof systemHead !== "function") throw new EngineInputError("systemHead", "must be a function of flow");
-  const sub = Math.max(1, Math.round(options.subdivisions ?? 8));
+  // Samples per interval: a whole number 1–MAX_SUBDIVISIONS (more gains nothing and only costs memory and time).
+  const sub = requireInteger("subdivisions", options.subdivisions ?? 8, 1);
+  if (sub > MAX_SUBDIVISIONS) throw new EngineInputError("subdivisions", `must be at most ${MAX_SUBDIVISIONS} (got ${sub})`);
   const maxIt = Math.max(1, Math.round(options.maxIterations ?? 100));
   const g = (q: number) => {
     const hs = systemHead(q);

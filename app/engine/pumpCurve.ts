@@ -9,7 +9,9 @@
  * liquid of density `powerDensity` (default 1000 kg/m³, water); shaft power for another
  * fluid scales with density. Whichever of efficiency or power is given, the other is derived
  * from P = ρ·g₀·Q·H/η (definition), so both paths give the same figures.
- * BEP = the point of highest efficiency (data point; the interpolant peaks there).
+ * BEP = the point of highest efficiency (data point; the interpolant peaks there), known only where it is an interior
+ * maximum of the points with efficiency: at the first or last of them (or with one only) the peak may lie past the data,
+ * so no BEP or POR is given (warning `bep-not-published`; common practice).
  * POR = 70–120 % of BEP flow (ANSI/HI 9.6.3, from memory).
  */
 import { EngineInputError, requireFinite, requirePositive, type EngineWarning } from "./errors.ts";
@@ -205,21 +207,49 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
   if (curve.minDiameter !== null && curve.maxDiameter !== null && curve.minDiameter > curve.maxDiameter) {
     throw new EngineInputError("minDiameter", "must not exceed maxDiameter");
   }
-  // BEP: highest efficiency among the points (given, or derived from power).
-  let best: BestEfficiencyPoint | null = null;
+  // BEP: highest efficiency among the points (given, or derived from power), known only where it is an interior
+  // maximum of those points (common practice: a peak at the first or last efficiency point may lie past it).
+  const known: BestEfficiencyPoint[] = [];
+  let best = -1;
   for (const p of clean) {
     const e = p.efficiency ?? (p.power !== undefined && p.flow > 0 ? (powerDensity * G0 * p.flow * p.head) / p.power : undefined);
-    if (e !== undefined && e > 0 && (!best || e > best.efficiency)) best = { flow: p.flow, head: p.head, efficiency: e };
+    if (e === undefined || !(e > 0)) continue;
+    known.push({ flow: p.flow, head: p.head, efficiency: e });
+    if (best < 0 || e > known[best].efficiency) best = known.length - 1;
   }
-  if (best && best.efficiency > 1) {
+  if (best >= 0 && known[best].efficiency > 1) {
     warnings.push({ code: "efficiency-above-one", message: "power column implies efficiency above 100 %: check power units" });
   }
-  if (best && best.flow > 0) {
-    curve.bep = best;
-    curve.por = { min: POR_FRACTION.min * best.flow, max: POR_FRACTION.max * best.flow };
+  if (best > 0 && best < known.length - 1) {
+    curve.bep = known[best];
+    curve.por = { min: POR_FRACTION.min * known[best].flow, max: POR_FRACTION.max * known[best].flow };
+  } else if (best >= 0) {
+    warnings.push({ code: "bep-not-published", message: bepUnknownText(known, best, curve.flowMin, curve.flowMax) });
   }
-  if (!curve.efficiency && !curve.power) warnings.push({ code: "no-efficiency", message: "curve has neither efficiency nor power: power figures unavailable" });
+  if (!curve.efficiency && !curve.power) {
+    const given = clean.find((p) => p.efficiency !== undefined || p.power !== undefined);
+    warnings.push({ code: "no-efficiency", message: given
+      ? `curve gives efficiency or power at one point only (${qt("flow", given.flow)}), too few to read it at another flow: power figures unavailable`
+      : "curve has neither efficiency nor power: power figures unavailable" });
+  }
   return curve;
+}
+
+/**
+ * Why a curve with efficiency has no BEP, in words with the flows: one efficiency point only, or the highest at the
+ * first or last of them (the efficiency still rising at the curve's end, or falling from its start): no BEP or POR verdict.
+ */
+function bepUnknownText(known: readonly BestEfficiencyPoint[], best: number, flowMin: number, flowMax: number): string {
+  const head = "BEP not published";
+  const tail = ": no BEP position or preferred operating region is judged";
+  if (known.length === 1) return `${head} (efficiency given at one point only, ${qt("flow", known[0].flow)})${tail}`;
+  const at = known[best].flow;
+  if (best === known.length - 1) {
+    return at >= flowMax ? `${head} (efficiency still rising at the curve's end, ${qt("flow", at)})${tail}`
+      : `${head} (efficiency highest at its last value, ${qt("flow", at)}, where its data end before the curve's end ${qt("flow", flowMax)}: the peak may lie past it)${tail}`;
+  }
+  return at <= flowMin ? `${head} (efficiency highest at the curve's first point, ${qt("flow", at)}: the peak may lie below the curve's flows)${tail}`
+    : `${head} (efficiency highest at its first value, ${qt("flow", at)}, where its data start after the curve's first flow ${qt("flow", flowMin)}: the peak may lie before it)${tail}`;
 }
 
 function asCurve(c: PumpCurve | PumpCurveInput): PumpCurve {

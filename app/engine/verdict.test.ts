@@ -49,6 +49,10 @@ describe("flow against the duty (tolerance −0 %/+10 %, common practice)", () =
     expect(inSI(v.reasons.join(" "))).toContain("Speed to the duty (speed 88.0 %): 5.20 kW shaft instead of 8.00 kW now, saving 2.80 kW (35 %)");
     expect(v.reasons.join(" ")).toContain("Throttling to the duty");
   });
+  it("a saving never reads as 0 % nor its powers as equal (43 W of 100 kW is 0.043 %; made-up powers)", () => {
+    const v = judge(1.2 * QD, { powerNow: 100_000, savings: [{ means: "throttling", power: 100_000 - 43, how: "valve closed to the duty" }] });
+    expect(inSI(v.reasons.join(" "))).toContain("99.96 kW shaft instead of 100.00 kW now, saving 0.043 kW (0.04 %)");
+  });
   it("bad input is refused", () => {
     expect(() => judgeCandidate({ dutyFlow: QD, edges: [] })).toThrow(EngineInputError);
     expect(() => judgeCandidate({ dutyFlow: NaN, edges: [edge(QD)] })).toThrow(EngineInputError);

@@ -24,12 +24,13 @@
  * water curve's `meets` or `oversized` becomes `viscosity-uncorrected` (the water curve's result kept in the
  * reasons); a `short` stays short (viscosity lowers head, flow and efficiency), with the reason said.
  * Default duty flow tolerance −0 % / +10 % (common practice: the duty flow is a minimum,
- * a tenth more is accepted margin). Comparisons allow 1 part in 10⁶ for solver round-off.
+ * a tenth more is accepted margin). Comparisons allow 1 part in 10⁶ for solver round-off (LIMIT_ROUNDOFF, affinity.ts:
+ * the same allowance as the trim and diameter flags of scaleByTrim).
  * Pure: numbers in, words out.
  */
-import { EngineInputError, requireFinite, requireNonNegative, requirePositive } from "./errors.ts";
+import { EngineInputError, requireNonNegative, requirePositive } from "./errors.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
-import { MAX_TRIM_FRACTION } from "./affinity.ts";
+import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION } from "./affinity.ts";
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 
 export type VerdictStatus = "meets" | "short" | "oversized" | "outside-catalogue" | "no-operating-point" | "viscosity-uncorrected";
@@ -48,8 +49,6 @@ export const DEFAULT_FLOW_TOLERANCE: FlowTolerance = { minus: 0, plus: 0.1 };
 /** Default allowed speed range as a fraction of rated speed (common practice, from memory). */
 export const DEFAULT_SPEED_RANGE = { min: 0.3, max: 1 } as const;
 
-/** Relative allowance for solver round-off in every comparison (dimensionless). */
-export const VERDICT_ROUNDOFF = 1e-6;
 
 /** One edge of the system band with the pump's operating point on it (SI). */
 export interface BandEdge {
@@ -145,7 +144,7 @@ function checkTolerance(t: FlowTolerance | undefined): FlowTolerance {
 export function catalogueReasons(c: CatalogueLimits | undefined): string[] {
   if (!c) return [];
   const out: string[] = [];
-  const eps = VERDICT_ROUNDOFF;
+  const eps = LIMIT_ROUNDOFF;
   const d = c.diameter ?? null;
   if (d !== null) {
     requirePositive("catalogue.diameter", d);
@@ -235,7 +234,7 @@ function qualifyForViscosity(v: Verdict, b: number): Verdict {
   const outside = b > VISCOSITY_B_MAX;
   const less = outside
     ? `far below its water curve: B is above ${VISCOSITY_B_MAX}, outside the ANSI/HI 9.6.7 method's range, so no correction is possible (${HI_VISCOSITY_SOURCE})`
-    : `less head, flow and efficiency than its water curve (at the BEP about ${fmtPct(f.head, 0)} of the head and flow and ${fmtPct(f.efficiency, 0)} of the efficiency, ${HI_VISCOSITY_SOURCE}), but the curve gives no efficiency, so no water BEP to correct it from`;
+    : `less head, flow and efficiency than its water curve (at the BEP about ${fmtPct(f.head, 0)} of the head and flow and ${fmtPct(f.efficiency, 0)} of the efficiency, ${HI_VISCOSITY_SOURCE}), but the curve gives no water BEP to correct it from (no efficiency, or none peaking inside its data)`;
   const why = `The pumped liquid's ANSI/HI 9.6.7 parameter B is ${bText(b)}, above ${VISCOSITY_B_NO_CORRECTION}: on it the pump gives ${less}.`;
   if (v.status === "short") return { ...v, reasons: [...v.reasons, `${why} On the liquid it falls further short.`] };
   if (v.status !== "meets" && v.status !== "oversized") return v;
@@ -253,9 +252,20 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   if (!Array.isArray(input.edges) || input.edges.length === 0) throw new EngineInputError("edges", "needs at least one band edge");
   for (const e of input.edges) {
     if (e.flow !== null) requireNonNegative("edges.flow", e.flow);
-    if (e.head !== null) requireFinite("edges.head", e.head);
+    // A pump's head where it meets the system is a head on its curve: never below zero (pumpCurve.ts refuses one).
+    if (e.head !== null) requireNonNegative("edges.head", e.head);
   }
-  const eps = VERDICT_ROUNDOFF;
+  // Shaft powers (W) in the oversized reasons: finite and not below zero, or null where not known.
+  if (input.powerNow != null) requireNonNegative("powerNow", input.powerNow);
+  if (input.savings !== undefined) {
+    if (!Array.isArray(input.savings)) throw new EngineInputError("savings", "must be a list of { means, power, how }");
+    input.savings.forEach((s, i) => {
+      if (!s || typeof s !== "object") throw new EngineInputError(`savings[${i}]`, "must be { means, power, how }");
+      if (s.means !== "throttling" && s.means !== "trim" && s.means !== "speed") throw new EngineInputError(`savings[${i}].means`, "must be 'throttling', 'trim' or 'speed'");
+      if (s.power != null) requireNonNegative(`savings[${i}].power`, s.power);
+    });
+  }
+  const eps = LIMIT_ROUNDOFF;
 
   const cat = catalogueReasons(input.catalogue);
   if (cat.length) {
@@ -295,7 +305,7 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
     for (const s of input.savings ?? []) {
       if (s.outside?.length) reasons.push(`${cap(s.means)} to the duty (${s.how}) is not an option the maker publishes: the ${s.outside.join("; the ")}.`);
       else if (s.power === null || now === null) reasons.push(`${cap(s.means)}: ${s.how}; the power at the duty is not known.`);
-      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qt("power", s.power)} shaft instead of ${qt("power", now)} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPct((now - s.power) / now, 0)})` : "no saving"}.`);
+      else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qtExact("power", s.power, [now])} shaft instead of ${qtExact("power", now, [s.power])} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPctExact((now - s.power) / now, [1], 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
       rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${apart(hi)}`, reasons };

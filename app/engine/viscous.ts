@@ -96,7 +96,8 @@ export function viscosityFactors(b: number): ViscosityFactors {
 
 /**
  * How a water curve stands on a liquid: `no-correction` (B ≤ 1, the water curve holds), `corrected` (1 < B ≤ 40),
- * `outside-method` (B > 40: not corrected), `no-bep` (the curve gives no efficiency, so no water BEP to correct from).
+ * `outside-method` (B > 40: not corrected), `no-bep` (the curve gives no water BEP to correct from: no efficiency, or its
+ * highest at an end of its data — pumpCurve.ts).
  */
 export type ViscousCurveStatus = "no-correction" | "corrected" | "outside-method" | "no-bep";
 

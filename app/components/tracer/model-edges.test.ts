@@ -51,9 +51,10 @@ describe("an iso-efficiency line clicked by hand is open unless the user closes 
     const curve = createPumpCurve({ points: c.points });
     expect([curve.efficiency, curve.bep, efficiencyAt(curve, c.points[5].flow)]).toEqual([null, null, null]);
     expect(curve.warnings.map((w) => w.code)).toContain("no-efficiency");
-    // ...and one value alone would make no efficiency curve yet be taken as the BEP (pumpCurve.ts: column needs two rows).
+    // ...and one value alone makes no efficiency curve, nor a BEP (pumpCurve.ts: a column needs two rows, a BEP an interior peak).
     const one = createPumpCurve({ points: c.points.map((p, i) => (i === 5 ? { ...p, efficiency: 0.7 } : p)) });
-    expect([one.efficiency, efficiencyAt(one, c.points[5].flow), one.bep?.flow]).toEqual([null, null, c.points[5].flow]);
+    expect([one.efficiency, efficiencyAt(one, c.points[5].flow), one.bep]).toEqual([null, null, null]);
+    expect(one.warnings.map((w) => w.code)).toContain("bep-not-published");
   });
 
   it("closed by the user's choice, the chord's crossing (75.87 m³/h) counts too", () => {
@@ -174,17 +175,20 @@ describe("efficiency inside the innermost contour a head curve crosses (invented
     expect(ps[0].to).toBeCloseTo(qEnd, 6); // the last clicked point, read back through the calibration
     expect(ps[0].midpoint).toBeCloseTo((ps[0].from + qEnd) / 2, 6);
     expect(peakWarning(ps[0], "m3/h")).toMatch(/^Curve 1 \(250 mm, 2900 rpm\): the peak is not traced\. The curve ends inside the 82 % contour: it crosses it once, at \d+\.\d m³\/h, and from there to the curve's end at \d+\.0 m³\/h the contours say only that the efficiency is above 82 %/);
-    // Unticked: no efficiency from the crossing to the end; the engine's BEP before the contour, below 82 %.
+    // Unticked: no efficiency from the crossing to the end; its highest value is its last, before the contour: no BEP
+    // (pumpCurve.ts: a BEP is known only at an interior peak of the efficiency; the peak lies in the blank span).
     const [blank] = engineCurves(st);
     const inside = blank.points.filter((p) => p.flow * 3600 > t.from + 1);
     expect(inside.length).toBeGreaterThan(1);
     expect(inside.filter((p) => p.efficiency !== undefined)).toEqual([]);
-    expect(blank.curve.bep!.flow * 3600).toBeLessThan(t.from + 1);
-    expect(100 * blank.curve.bep!.efficiency).toBeLessThan(82);
-    // Ticked: the span's middle is written at 82 % and is the BEP.
+    expect(blank.curve.bep).toBeNull();
+    expect(blank.curve.warnings.map((w) => w.code)).toContain("bep-not-published");
+    // Ticked: the span's middle is written at 82 %, the last efficiency row: the engine takes no BEP at a data end either.
     const [taken] = engineCurves({ ...st, curves: st.curves.map((c) => (c.id === 1 ? { ...c, peakAtMidpoint: true } : c)) });
-    expect(100 * taken.curve.bep!.efficiency).toBeCloseTo(82, 6);
-    expect(taken.curve.bep!.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    const top = taken.points.filter((p) => p.efficiency !== undefined).at(-1)!;
+    expect(100 * top.efficiency!).toBeCloseTo(82, 6);
+    expect(top.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    expect(taken.curve.bep).toBeNull();
     expect(taken.points.filter((p) => p.efficiency !== undefined && p.flow * 3600 > ps[0].midpoint + 1e-6)).toEqual([]);
   });
 
@@ -200,17 +204,19 @@ describe("efficiency inside the innermost contour a head curve crosses (invented
     expect(Math.abs(ps[0].to - t.to)).toBeLessThan(0.5);
     expect(ps[0].midpoint).toBeCloseTo((qStart + ps[0].to) / 2, 6);
     expect(peakWarning(ps[0], "m3/h")).toMatch(/^Curve 1 \(250 mm, 2900 rpm\): the peak is not traced\. The curve starts inside the 82 % contour: it crosses it once, at \d+\.\d m³\/h, and from the curve's start at \d+\.0 m³\/h to there the contours say only that the efficiency is above 82 %/);
-    // Unticked: no efficiency from the start to the crossing; the engine's BEP after the contour, below 82 %.
+    // Unticked: no efficiency from the start to the crossing; its highest value is its first, after the contour: no BEP.
     const [blank] = engineCurves(st);
     const inside = blank.points.filter((p) => p.flow * 3600 < t.to - 1);
     expect(inside.length).toBeGreaterThan(1);
     expect(inside.filter((p) => p.efficiency !== undefined)).toEqual([]);
-    expect(blank.curve.bep!.flow * 3600).toBeGreaterThan(t.to - 1);
-    expect(100 * blank.curve.bep!.efficiency).toBeLessThan(82);
-    // Ticked: the span's middle is written at 82 % and is the BEP, nothing before it.
+    expect(blank.curve.bep).toBeNull();
+    expect(blank.curve.warnings.map((w) => w.code)).toContain("bep-not-published");
+    // Ticked: the span's middle is written at 82 %, the first efficiency row, nothing before it: no BEP at a data end either.
     const [taken] = engineCurves({ ...st, curves: st.curves.map((c) => (c.id === 1 ? { ...c, peakAtMidpoint: true } : c)) });
-    expect(100 * taken.curve.bep!.efficiency).toBeCloseTo(82, 6);
-    expect(taken.curve.bep!.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    const first = taken.points.find((p) => p.efficiency !== undefined)!;
+    expect(100 * first.efficiency!).toBeCloseTo(82, 6);
+    expect(first.flow * 3600).toBeCloseTo(ps[0].midpoint, 3);
+    expect(taken.curve.bep).toBeNull();
     expect(taken.points.filter((p) => p.efficiency !== undefined && p.flow * 3600 < ps[0].midpoint - 1e-3)).toEqual([]); // the CSV writes flow to 4 decimals
   });
 });

@@ -27,6 +27,11 @@ export const verdictViscosity = (c: ViscosityCheck) => (c.b == null ? null : { b
 /** The stored summary of a check (a candidate's result): status, B and the factors; null for water. */
 export const viscositySummary = (c: ViscosityCheck) => (c.status === "water" ? null : { status: c.status, b: c.b, factors: c.factors });
 
+/** Why a water curve has no BEP, in words: no efficiency at all, or none peaking inside its data (pumpCurve.ts). */
+const noBepWhy = (curve: PumpCurve) => (curve.warnings.some((w) => w.code === "bep-not-published")
+  ? "The curve's efficiency has no peak inside its data (BEP not published), so no water BEP"
+  : "The curve gives no efficiency, so no water BEP");
+
 /**
  * One pump of a candidate, as adjusted, on the system's liquid: B, the curve to judge with, and the warnings to show.
  * @param fluid the system's liquid (kinematic viscosity m²/s, density kg/m³)
@@ -48,7 +53,7 @@ export function viscosityCheck(fluid: Liquid, curve: PumpCurve, speed: number | 
     if (op == null || !(op.flow > 0) || !(op.head > 0)) return notChecked("a flow and head at the BEP");
     const p = viscosityParameterB({ kinematicViscosity: fluid.kinematicViscosity, bepFlow: op.flow, bepHead: op.head, speed });
     if (!p.needsCorrection) return as("no-correction", p.b, []);
-    return as("no-bep", p.b, [`ANSI/HI 9.6.7 parameter B = ${bText(p.b)} (above ${VISCOSITY_B_NO_CORRECTION}: correction needed) for ${liquid} at its operating point ${qt("flow", op.flow)} and ${qt("head", op.head)}, ${at}. The curve gives no efficiency, so no water BEP: the method cannot correct it, and the figures are the water curve's (${HI_VISCOSITY_SOURCE}).`]);
+    return as("no-bep", p.b, [`ANSI/HI 9.6.7 parameter B = ${bText(p.b)} (above ${VISCOSITY_B_NO_CORRECTION}: correction needed) for ${liquid} at its operating point ${qt("flow", op.flow)} and ${qt("head", op.head)}, ${at}. ${noBepWhy(curve)}: the method cannot correct it, and the figures are the water curve's (${HI_VISCOSITY_SOURCE}).`]);
   }
   const b = v.b as number;
   const where = `at its water BEP ${qt("flow", v.bep!.flow)} and ${qt("head", v.bep!.head)}, ${at}`;

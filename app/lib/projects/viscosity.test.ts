@@ -115,7 +115,17 @@ describe("a water curve on a viscous liquid, corrected per ANSI/HI 9.6.7", () =>
     const r = evaluateCandidate(lowLoss(0.5, 0.0135, 23), bare, DEFAULT_ADJUSTMENT);
     expect(r.viscosity!.status).toBe("no-bep");
     expect(r.verdict!.status).toBe("viscosity-uncorrected");
-    expect(r.verdict!.reasons[0]).toMatch(/the curve gives no efficiency, so no water BEP to correct it from/);
+    expect(r.verdict!.reasons[0]).toMatch(/the curve gives no water BEP to correct it from \(no efficiency, or none peaking inside its data\)/);
+    expect(r.warnings.join(" ")).toMatch(/The curve gives no efficiency, so no water BEP: the method cannot correct it/);
+  });
+
+  it("a curve whose efficiency still rises at its end: no BEP (pumpCurve.ts), and no page text says it gives no efficiency", () => {
+    const rising = { ...huntCurve, points: huntCurve.points.map((p, i) => ({ ...p, efficiency: i === 0 ? 0 : 0.4 + 0.08 * i })) };
+    const r = evaluateCandidate(lowLoss(0.5, 0.0135, 23), rising, DEFAULT_ADJUSTMENT);
+    expect(r.viscosity!.status).toBe("no-bep");
+    const all = [...r.warnings, ...r.verdict!.reasons].join(" ");
+    expect(all).not.toMatch(/gives no efficiency/);
+    expect(all).toMatch(/The curve's efficiency has no peak inside its data \(BEP not published\), so no water BEP: the method cannot correct it/);
   });
 
   it("a curve without a speed: no B, and a warning that the curve was not checked for the liquid", () => {
