@@ -2,13 +2,19 @@
  * Operating point: where pump head equals system head. The difference g(Q) = H_pump(Q) −
  * H_system(Q) is sampled over the curve (each curve interval split into equal parts) to
  * bracket every sign change, then each bracket is solved with Brent's method (Brent 1973;
- * iteration cap, bisection as the named fallback — see roots.ts). Every outcome is named:
- * - `ok`: one intersection;
- * - `multiple`: several (drooping curve); all are listed, the highest-flow one is reported
- *   as the operating point (the stable one on the falling part of the curve);
- * - `no-intersection-shutoff-below-static`: the pump's head at its first point is already
- *   below the system head there (for a curve starting at zero flow: shutoff head below the
- *   static head), and the curves never meet;
+ * iteration cap, bisection as the named fallback — see roots.ts). Every crossing is stable (the pump's head falls below the
+ * system's past it) or unstable (it rises above it again). Started from rest against a closed check valve (common
+ * practice, from memory), the pump runs only when its head at the curve's first point exceeds the system's there,
+ * and then settles at the first stable crossing. Every outcome is named:
+ * - `ok`: one intersection, reached from rest (at zero flow when the shut-off head equals the system's head
+ *   there: the warning `dead-head`, no delivery);
+ * - `multiple`: several (drooping curve); all are listed, the one reached from rest (the first stable one) is
+ *   reported; each unstable crossing above it is a warning `unstable-crossing`, saying where a pump pushed past
+ *   it runs on to;
+ * - `no-intersection-shutoff-below-static`: the pump's head at its first point is below the system head there
+ *   (for a curve starting at zero flow: shut-off head below the static head, so the pump cannot open its check
+ *   valve); no operating point is reachable from rest, whatever crossings lie further out (they are listed in
+ *   `points` and named in the message, the first one unstable);
  * - `beyond-curve-end`: pump head still exceeds system head at the last point — the pump
  *   would run out past the end of its published curve.
  * A reported point where the curves do not actually meet (the system curve jumps across the pump's head,
@@ -48,6 +54,11 @@ export interface OperatingPointResult {
   atLastPoint: { flow: number; pumpHead: number; systemHead: number };
   /** Human-readable summary. */
   message: string;
+  /**
+   * With `no-intersection-shutoff-below-static` and crossings further out: the crossings the pump never reaches from rest,
+   * and the first one's instability, in words with the numbers (the message's own clause); absent otherwise.
+   */
+  unreached?: string;
   warnings: EngineWarning[];
 }
 
@@ -116,21 +127,46 @@ function solveInner(
   const lastQ = qs[qs.length - 1];
   const last = { flow: lastQ, pumpHead: evalCubic(c.head, lastQ) as number, systemHead: systemHead(lastQ) };
   const warnings: EngineWarning[] = [...c.warnings];
-  if (points.length === 0) {
-    const [pumpFirst, systemFirst] = qtPair("head", first.pumpHead, first.systemHead); // never read as equal beside "below"
-    if (gs[0] < 0) {
-      return { status: "no-intersection-shutoff-below-static", flow: null, head: null, points, method: null, iterations,
-        atFirstPoint: first, atLastPoint: last, warnings,
-        message: c.shutoffHead !== null
-          ? `Shutoff head ${pumpFirst} is below the system head ${systemFirst} at zero flow: the pump cannot deliver into this system`
-          : `Pump head at its first point (${pumpFirst}) is below the system head there (${systemFirst}) and the curves never meet` };
-    }
+  const [pumpFirst, systemFirst] = qtPair("head", first.pumpHead, first.systemHead); // never read as equal beside "below"
+  const lastText = qtPair("head", last.pumpHead, last.systemHead).join(" against the system's ");
+  // The sign of g just past each crossing: below zero, the pump's head falls under the system's there (stable: more flow
+  // brings less head than the system needs); above zero, it rises above it again (unstable: the flow runs on).
+  const afterSign = roots.map((r) => { // the first sample past the root that is not itself zero
+    let j = qs.findIndex((q) => q > r.x);
+    while (j >= 0 && j < gs.length && gs[j] === 0) j++;
+    return j < 0 || j >= gs.length ? 0 : Math.sign(gs[j]);
+  });
+  const listText = (idx: number[]) => idx.map((i) => `${qt("flow", points[i].flow)} (${qt("head", points[i].head)})`).join(", ");
+  // Where a pump flowing past an unstable crossing ends: the next stable crossing above it, or past the curve's end.
+  const runsOnTo = (i: number) => {
+    const k = roots.findIndex((r, j) => j > i && afterSign[j] < 0);
+    return k >= 0 ? `to the crossing at ${listText([k])}` : `past the published curve's end (at its last point the pump still gives ${lastText})`;
+  };
+  const unstableText = (i: number, which = `the crossing at ${listText([i])}`) =>
+    `${which} is unstable: the pump's head rises above the system's again past it, so a pump pushed past it runs on ${runsOnTo(i)}`;
+  // Common practice (from memory): a pump starts against a closed check valve from rest, so its head at zero flow (the
+  // shut-off head) must exceed the system's head there; below it the valve never opens, whatever crossings lie further out.
+  if (gs[0] < 0) {
+    const all = roots.map((_, i) => i);
+    const unreached = `the curves cross at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
+    const crossings = `; ${unreached}`;
+    return { status: "no-intersection-shutoff-below-static", flow: null, head: null, points, method: null, iterations,
+      atFirstPoint: first, atLastPoint: last, warnings, ...(roots.length ? { unreached } : {}),
+      message: c.shutoffHead !== null
+        ? `Shutoff head ${pumpFirst} is below the system head ${systemFirst} at zero flow: the pump cannot open its check valve${roots.length ? crossings : " and cannot deliver into this system"}`
+        : `Pump head at its first point (${pumpFirst}) is below the system head there (${systemFirst})${roots.length ? `: the published curve does not show the pump starting from rest (its shut-off head is not published)${crossings}` : " and the curves never meet"}` };
+  }
+  // From rest (pump head above the system's at the first point, or equal and falling below it) the flow rises to the first
+  // crossing where the pump's head falls under the system's: the point it settles at. A start exactly at equal heads with the
+  // pump's head rising above the system's next is no settling point: the flow moves on.
+  const chosenAt = afterSign.findIndex((s) => s <= 0); // 0: nothing sampled past it (the curve's last point)
+  if (chosenAt < 0) {
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
       message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
   }
-  const chosen = roots[roots.length - 1];
-  const op = points[points.length - 1];
+  const chosen = roots[chosenAt];
+  const op = points[chosenAt];
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re
   // to the turbulent correlation at Re 2000, see headLoss.ts), and the pump's head lies inside the step. The
   // curves never meet; the flow there is unsettled. Said with the numbers, the point kept (the best estimate).
@@ -142,13 +178,23 @@ function solveInner(
   if (op.flow >= c.flowMax * 0.98 && c.flowMax > 0) {
     warnings.push({ code: "near-curve-end", message: "operating point is at the far end of the published curve (runout)" });
   }
+  // Dead-head (common practice, from memory): at zero flow the pump only churns the liquid, which heats; pumps have a
+  // minimum continuous flow (the maker's), and running below it damages them.
+  const deadHead = op.flow === 0;
+  if (deadHead) {
+    warnings.push({ code: "dead-head",
+      message: `no flow: the pump's shut-off head ${qt("head", op.head)} only balances the system's ${qt("head", systemHead(0))} at zero flow, so it runs against the closed check valve (dead-head), churning and heating the liquid; a pump must not run below its minimum continuous flow (the maker's figure)` });
+  }
+  const unstable = roots.map((_, i) => i).filter((i) => i > chosenAt && afterSign[i] > 0);
+  for (const i of unstable) warnings.push({ code: "unstable-crossing", message: unstableText(i) });
   if (points.length > 1) {
     return { status: "multiple", flow: op.flow, head: op.head, points, method: chosen.method, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `${points.length} intersections (drooping curve): operation may be unstable; the highest-flow one is reported` };
+      message: `${points.length} intersections (drooping curve): from rest the pump settles at the first where its head falls below the system's, ${listText([chosenAt])}, reported${unstable.length ? `; ${unstableText(unstable[0])}` : "; operation may be unstable"}` };
   }
   return { status: "ok", flow: op.flow, head: op.head, points, method: chosen.method, iterations,
-    atFirstPoint: first, atLastPoint: last, warnings, message: "Operating point found" };
+    atFirstPoint: first, atLastPoint: last, warnings,
+    message: deadHead ? `Operating point at zero flow: the shut-off head equals the system's head there (dead-head), no delivery` : "Operating point found" };
 }
 
 /**

@@ -137,7 +137,8 @@ export function fmtPct(x: number | null | undefined, digits = 1): string {
 /**
  * A fraction as a percentage in a text that compares it with thresholds: as fmtPct, with more decimals
  * (up to 6) while it would read the same as one of `against`, or as zero, though it is not, so a value
- * judged outside a limit never reads as the limit ("99.96 %" beside a limit of 100 %, not "100.0 %").
+ * judged outside a limit never reads as the limit ("99.96 %" beside a limit of 100 %, not "100.0 %"); a value still
+ * reading as zero at 6 decimals reads "under 0.000001 %".
  * @param x the fraction (dimensionless)
  * @param against the thresholds it is compared with (fractions, dimensionless)
  * @param digits decimals at the least (count)
@@ -147,6 +148,8 @@ export function fmtPctExact(x: number | null | undefined, against: readonly numb
   const shown = (v: number, d: number) => Number((v * 100).toFixed(d)); // -0 and 0 read the same
   let d = digits;
   while (d < 6 && [0, ...against].some((a) => a !== x && shown(a, d) === shown(x, d))) d++;
+  // Still zero at 6 decimals though it is not: said as a bound ("under 0.000001 %"), never "0.000000 %".
+  if (x !== 0 && shown(x, d) === 0) return `${x < 0 ? "−" : ""}under ${fmtPct(10 ** -(d + 2), d)}`;
   return fmtPct(x, d);
 }
 

@@ -8,12 +8,13 @@
  *    than the published curve's), or a speed outside the allowed range (default 30–100 % of the
  *    model's rated speed, common practice for variable-speed centrifugal pumps; the model may state
  *    its own range).
- * 2. `no-operating-point` — at some edge of the system band the pump curve and the system
- *    curve do not meet; the reason says why (shut-off head below the system's head at the
- *    curve's first point, or the curve ends while the pump still gives more head than the
- *    system needs).
+ * 2. `no-operating-point` — at some edge of the system band the pump reaches no operating point
+ *    from rest; the reason says why (shut-off head below the system's head at the curve's first
+ *    point: it cannot open its check valve, whatever crossings lie further out — common practice;
+ *    or the curve ends while the pump still gives more head than the system needs).
  * 3. `short` — at the band's demanding edge (where the pump delivers least: most static lift,
- *    aged pipe) the operating flow is below the duty flow × (1 − minus tolerance).
+ *    aged pipe) the operating flow is below the duty flow × (1 − minus tolerance); a flow of zero there (shut-off
+ *    head equal to the system's head at zero flow: dead-head) says "no delivery".
  * 4. `oversized` — at that edge it is above the duty flow × (1 + plus tolerance); the reasons
  *    say what throttling, trim or speed would save.
  * 5. `meets` — otherwise.
@@ -297,7 +298,9 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
       rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${apart(lo)}`,
-      reasons: [`Delivers ${flowText} at ${worst.name} against a duty of ${apart(qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
+      reasons: [q === 0 // dead-head (common practice, from memory): the pump churns against its closed check valve
+        ? `No delivery at ${worst.name}: the pump's shut-off head ${qt("head", worst.head as number)} only balances the system's head at zero flow (dead-head), against a duty of ${apart(qd)}${(best.flow as number) > 0 ? band : ""}.`
+        : `Delivers ${flowText} at ${worst.name} against a duty of ${apart(qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
   }
   if (q > hi * (1 + eps)) {
     const reasons = [`Delivers ${flowText} at ${worst.name}, its least flow in the band, against a duty of ${apart(qd)}: ${ratioText} of the duty, above the tolerance ${tolText}.`];

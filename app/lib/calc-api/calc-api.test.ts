@@ -188,14 +188,19 @@ describe("POST /api/v1/calc/operating-point", () => {
     expect((r.body as { message: string }).message).toMatch(/shutoff/i);
   });
 
-  test("a drooping curve crossing twice: multiple, all intersections listed, the highest flow reported", async () => {
+  test("a drooping curve crossing twice above its shut-off head: no_intersection (it cannot start), both crossings listed; just below the shut-off it starts", async () => {
     const drooping = { points: [{ flow_m3s: 0, head_m: 30 }, { flow_m3s: 0.02, head_m: 33 }, { flow_m3s: 0.04, head_m: 30 }, { flow_m3s: 0.06, head_m: 20 }] };
     const r = await post("operating-point", { pump: drooping, system: { static_head_m: 31.5, segments: [] } });
-    const b = r.body as { status: string; flow_m3s: number; head_m: number; intersections: { flow_m3s: number; head_m: number }[] };
-    expect(b.status).toBe("multiple"); // a flat 31.5 m system cuts a 30→33→30 m hump twice (geometry)
-    expect(b.intersections).toHaveLength(2);
+    const b = r.body as { status: string; flow_m3s: number | null; message: string; intersections: { flow_m3s: number; head_m: number }[] };
+    // Common practice (from memory): a 30 m shut-off head cannot open a check valve against 31.5 m, whatever crossings lie further out.
+    expect(b.status).toBe("no_intersection");
+    expect(b.flow_m3s).toBeNull();
+    expect(b.intersections).toHaveLength(2); // a flat 31.5 m system cuts a 30→33→30 m hump twice (geometry)
     for (const x of b.intersections) expect(x.head_m).toBeCloseTo(31.5, 6); // flat system: every crossing at the static head
-    expect(b.flow_m3s).toBe(b.intersections[1].flow_m3s); // our rule: the highest-flow (stable) one is reported
+    expect(b.message).toMatch(/^Shutoff head 30\.0 m is below the system head 31\.5 m at zero flow: the pump cannot open its check valve; the curves cross at .*which it never reaches from rest; the first is unstable/);
+    const started = (await post("operating-point", { pump: drooping, system: { static_head_m: 29.9, segments: [] } })).body as { status: string; flow_m3s: number };
+    expect(started.status).toBe("ok"); // 30 m > 29.9 m at zero flow: it starts and crosses once, on the falling part (geometry)
+    expect(started.flow_m3s).toBeGreaterThan(0.04);
   });
 
   test("pump head above the system head at its last point: beyond_curve", async () => {

@@ -241,7 +241,7 @@ export type OperatingPointResponse = Answer<{
   head_m: number | null;
   efficiency?: number;
   message: string;
-  /** Every crossing, ascending flow (one when ok, several when multiple, none otherwise). */
+  /** Every crossing, ascending flow (one when ok, several when multiple; with no_intersection those the pump never reaches from rest; none with beyond_curve). */
   intersections: { flow_m3s: number; head_m: number }[];
 }>;
 

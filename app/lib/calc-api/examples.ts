@@ -110,8 +110,8 @@ export const CALC_ENDPOINT_DOCS: readonly EndpointDoc[] = [
 }`,
     notes: [
       "status ok: the curves cross once.",
-      "status multiple: a drooping curve crosses more than once; every crossing is in intersections and the highest-flow one is reported (the stable one). Running there may still be unstable.",
-      "status no_intersection: the pump's head at its first point is below the system head there (shutoff below static head) and the curves never meet; flow_m3s and head_m are null.",
+      "status multiple: a drooping curve crosses more than once; every crossing is in intersections and the one the pump settles at from rest is reported (the first where its head falls below the system's); an unstable crossing above it (the pump's head rising above the system's again) is a warning.",
+      "status no_intersection: the pump's head at its first point is below the system head there (shutoff below static head): it cannot open its check valve from rest, so there is no operating point even where the curves cross further out (those crossings are still listed in intersections and named in the message); flow_m3s and head_m are null.",
       "status beyond_curve: the pump still gives more head than the system needs at the last published point; the real operating point lies beyond the curve data. flow_m3s and head_m are null.",
       "efficiency is present only when the points carry efficiency covering the operating flow.",
     ],

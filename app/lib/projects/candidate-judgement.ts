@@ -72,13 +72,19 @@ export const governingName = (mode: "open" | "closed-loop") => (mode === "open" 
 
 // Quantities as tokens: rendered in the reader's units where the text is shown.
 
-/** Why a solve found no operating point, in words with the numbers. */
+/**
+ * Why a solve found no operating point, in words with the numbers. A pump whose head at zero flow is below the system's
+ * cannot open its check valve from rest (common practice, from memory): no point is reachable, whatever crossings lie
+ * further out (the engine names them, and the first one's instability, in `unreached`).
+ */
 export function noPointReason(op: OperatingPointResult): string {
   const f = op.atFirstPoint, l = op.atLastPoint;
   if (op.status === "no-intersection-shutoff-below-static") {
     const [pump, system] = qtPair("head", f.pumpHead, f.systemHead); // never read as equal beside "below"
-    return f.flow === 0
-      ? `shut-off head ${pump} is below the system's ${system} at zero flow: the pump cannot open its check valve`
+    const unreached = op.unreached ? `; ${op.unreached}` : "";
+    if (f.flow === 0) return `shut-off head ${pump} is below the system's ${system} at zero flow: the pump cannot open its check valve${unreached}`;
+    return unreached
+      ? `the pump gives ${pump} at its first published point (${qt("flow", f.flow)}), below the system's ${system} there: the published curve does not show it starting from rest (its shut-off head is not published)${unreached}`
       : `the pump gives ${pump} at its first published point (${qt("flow", f.flow)}), below the system's ${system} there, and the curves never meet`;
   }
   if (op.status === "beyond-curve-end") {
@@ -99,6 +105,8 @@ export type BandPoint = {
   npshAvailable?: number | null;
   npshRequired?: number | null;
   reason: string | null;
+  /** The engine's cautions at this point (runout, dead-head, an unstable crossing…), the curve's own left out; absent in selections frozen before. */
+  warnings?: string[];
 };
 
 /** NPSH at one point where the pump runs: NPSHa, NPSHr (m; null where unknown) and their ratio (dimensionless). */
@@ -226,7 +234,22 @@ function pointAt(ctx: Ctx, name: string, which: SystemCase): BandPoint {
   const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
     staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
   return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
-    shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, npshAvailable: na, npshRequired: nr, reason: null };
+    shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, npshAvailable: na, npshRequired: nr, reason: null,
+    warnings: op.warnings.filter((w) => !ctx.combined.warnings.some((c) => c.code === w.code)).map((w) => w.message) };
+}
+
+/**
+ * The band's edges' cautions for the candidate's warnings, each naming the edges it holds at ("At least lift, new pipe
+ * and most lift, aged pipe: …"): the same caution once. An edge runs at its own flow: a runout or dead-head there is
+ * not the design point's (one at the design point's own flow, already among its warnings, is not repeated).
+ */
+export function bandCautions(band: readonly BandPoint[], design: { flow: number | null; warnings: readonly string[] }): string[] {
+  const at = new Map<string, string[]>();
+  for (const b of band) for (const w of b.warnings ?? []) {
+    if (b.flow === design.flow && design.warnings.includes(w)) continue; // the design point itself, already said
+    at.set(w, [...(at.get(w) ?? []), b.edge]);
+  }
+  return [...at].map(([w, edges]) => `At ${edges.join(" and ")}: ${w}`);
 }
 
 /**

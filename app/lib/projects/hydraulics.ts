@@ -34,7 +34,8 @@ export * from "./candidate-input";
 export * from "./duty-check";
 import { dutyCheckOf, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
-import { bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
+import { arrangementStartWarnings } from "./arrangement-start";
+import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
@@ -305,6 +306,7 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
+  warnings.push(...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx));
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
   const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))

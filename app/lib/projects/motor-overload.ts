@@ -6,7 +6,7 @@
 // running alone on that edge (the first to start, or the others tripped: a single pump runs further out on its curve
 // than when it shares the flow, common practice). A known overload decides whatever the rest.
 import { bandEdges } from "./candidate-judgement";
-import { headAt, overloadCheck, systemHeadFunction, type MaxShaftPower, type PreparedSystem, type PumpCurve } from "~/engine";
+import { headAt, overloadCheck, solveOperatingPoint, systemHeadFunction, type MaxShaftPower, type PreparedSystem, type PumpCurve } from "~/engine";
 import { qt, qtPair } from "~/engine/quantityText";
 
 export type OverloadJudgement = {
@@ -35,13 +35,17 @@ export function runsPastCurveEnd(ctx: RunCtx): string[] {
   const runOut = bandEdges(ctx.mode)[0];
   const sys = systemHeadFunction(ctx.prepared, runOut.which);
   const out: string[] = [];
-  // Past the end when the pump still gives more head than the system needs at its last published flow: the flow rises on
-  // past it (what solveOperatingPoint calls beyond-curve-end; with a drooping curve crossing the system earlier, too).
+  // Past the end as the engine's solve says (solveOperatingPoint): beyond-curve-end; or settled at a stable crossing with an
+  // unstable one further out past which it runs on off the curve (a drooping curve). A pump whose head at zero flow is below
+  // the system's never starts there (no-intersection-shutoff-below-static): it runs nowhere, so not past the end either.
   const past = (who: string, c: PumpCurve) => {
+    const op = solveOperatingPoint(c, sys);
     const pumpHead = headAt(c, c.flowMax), systemHead = sys(c.flowMax);
-    if (pumpHead === null || !(pumpHead > systemHead)) return;
+    if (op.status === "no-intersection-shutoff-below-static" || pumpHead === null || !(pumpHead > systemHead)) return;
     const [pump, system] = qtPair("head", pumpHead, systemHead);
-    out.push(`at ${runOut.name} ${who} past the published curve's end (${qt("flow", c.flowMax)}, still giving ${pump} against the system's ${system})`);
+    const unstable = op.flow != null ? op.points[op.points.length - 1] : null;
+    const pushed = unstable ? ` once pushed past the unstable crossing at ${qt("flow", unstable.flow)} (${qt("head", unstable.head)})` : "";
+    out.push(`at ${runOut.name} ${who} past the published curve's end${pushed} (${qt("flow", c.flowMax)}, still giving ${pump} against the system's ${system})`);
   };
   past(ctx.arrangement === "single" ? "the pump runs" : `the ${ctx.n} pumps run`, ctx.combined);
   if (ctx.arrangement === "parallel" && ctx.n > 1) past("one pump running alone (the first to start, or the others tripped) runs", ctx.curve);
