@@ -1,10 +1,10 @@
 // The peak the contours do not trace (app/lib/tracer/peak.ts): one warning per head curve whose
-// efficiency comes from contours, with the box that takes the middle of its innermost contour (or, for
-// a curve that ends inside it, of the span from its crossing to the curve's end; for one that starts
-// inside it, of the span from its start to its crossing) as the best-efficiency point. Unticked, those
-// rows stay blank. A curve that crosses one contour once gets its warning without a box: it has no span.
+// efficiency comes from contours, with the box that writes the middle of its innermost span at the
+// contour's level (`peakBoxLabel`): between two crossings it is then the best-efficiency point; for a
+// curve that ends (or starts) inside the contour it only carries the efficiency and shaft power to the
+// middle, the engine knowing no best-efficiency point there either way. Unticked, those rows stay blank. A curve that crosses one contour once gets its warning without a box: it has no span.
 // The same facts go with the import, short, into the source line and so into the revision's note.
-import { peakWarning, type UnreadPeak } from "~/lib/tracer/peak";
+import { peakBoxLabel, peakWarning, type UnreadPeak } from "~/lib/tracer/peak";
 
 export function PeakNotice(props: { peaks: UnreadPeak[]; flowUnit: string; onTake: (curveId: number, taken: boolean) => void }) {
   if (!props.peaks.length) return null;
@@ -16,7 +16,7 @@ export function PeakNotice(props: { peaks: UnreadPeak[]; flowUnit: string; onTak
           {p.lone ? null : (
             <label className="flex items-center gap-1">
               <input type="checkbox" data-testid={`peak-take-${p.curveId}`} checked={p.taken} onChange={(e) => props.onTake(p.curveId, e.target.checked)} />
-              {`Take the middle of ${p.toEnd || p.fromStart ? "the span inside " : ""}the ${String(+p.level.toFixed(2))} % contour as ${p.curve}’s best-efficiency point`}
+              {peakBoxLabel(p, props.flowUnit)}
             </label>
           )}
         </div>

@@ -3,7 +3,7 @@
 // Invented curves and levels; expected values worked out by hand beside each check.
 import { describe, expect, it } from "vitest";
 import { contourGaps, tracedRows, type TracedSet } from "./index";
-import { peakNote, peakWarning, type UnreadPeak } from "./peak";
+import { peakBoxLabel, peakNote, peakWarning, type UnreadPeak } from "./peak";
 import { SOURCE_MAX, tracedSource } from "./sniff";
 
 const units = { flow: "m3/h", head: "m", efficiency: "%", power: "kW", npshr: "m" } as const;
@@ -82,29 +82,35 @@ describe("words about the peak", () => {
     expect(peakWarning({ ...p, taken: true, next: 78, impellerMm: NaN }, "l/s")).toBe(
       "Curve 2 (2900 rpm): the peak is not traced. Inside the 74 % contour, from 30.0 to 50.0 l/s, the contours say only that the efficiency is above 74 % and below 78 %; the middle of that span, 40.0 l/s, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points), the rest of the span blank.",
     );
+    // Between two crossings the middle is an interior peak, so the box takes it as the BEP (peak-engine.test.ts ties it to the engine).
+    expect(peakBoxLabel(p, "m3/h")).toBe("Take the middle of the 74 % contour as Curve 2’s best-efficiency point");
   });
 
   it("on the page, for a curve that ends inside the contour: the one crossing, the curve's end, what the engine does, and the choice", () => {
     const end: UnreadPeak = { ...p, from: 30, to: 45, midpoint: 37.5, toEnd: true };
     expect(peakWarning(end, "m3/h")).toBe(
-      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 %; the peak lies there or past the curve's end, so the efficiency there is left blank: the engine reads no efficiency past its last row before 30.0 m³/h and puts the best-efficiency point before the contour, below 74 %. Tick the box to take the middle of the span, 37.5 m³/h, as the best-efficiency point at 74 %.",
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 %; the peak lies there or past the curve's end, so the efficiency there is left blank: it is written up to its last row before 30.0 m³/h, rising to it, and none past it (no efficiency or shaft power from 30.0 m³/h to the curve's end at 45.0 m³/h). No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, and this curve's highest efficiency written is its last row, the peak at or past the end of its efficiency data (no BEP or preferred operating region is judged). Tick the box to write the middle of the span, 37.5 m³/h, at 74 %: the efficiency (understated) and shaft power (overstated) then reach 37.5 m³/h, still with no best-efficiency point.",
     );
     expect(peakWarning({ ...end, taken: true, next: 78 }, "m3/h")).toBe(
-      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or past the curve's end. The middle of that span, 37.5 m³/h, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency past 37.5 m³/h.",
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve ends inside the 74 % contour: it crosses it once, at 30.0 m³/h, and from there to the curve's end at 45.0 m³/h the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or past the curve's end. The middle of that span, 37.5 m³/h, is written at 74 % (understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the efficiency is written up to 37.5 m³/h, read below 74 % from 30.0 m³/h to there (shaft power overstated), and none past it (no efficiency or shaft power from 37.5 m³/h to the curve's end at 45.0 m³/h). No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, and this curve's highest efficiency written is its last row, the peak at or past the end of its efficiency data (no BEP or preferred operating region is judged).",
     );
-    expect(peakNote([end], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from 30.0 m³/h to the curve's end at 45.0 m³/h");
+    expect(peakNote([end], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from 30.0 m³/h to the curve's end at 45.0 m³/h, no BEP (peak at or past the end of the efficiency data)");
+    // Ticked, the note names the middle written and still no BEP (pumpCurve.ts: a BEP only at an interior efficiency peak); the box says as much.
+    expect(peakNote([{ ...end, taken: true }], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from 30.0 m³/h to the curve's end at 45.0 m³/h, middle 37.5 m³/h written at 74 %, no BEP (peak at or past the end of the efficiency data)");
+    expect(peakBoxLabel(end, "m3/h")).toBe("Write the middle of the span inside the 74 % contour, 37.5 m³/h, at 74 % for Curve 2: efficiency and shaft power up to 37.5 m³/h, no best-efficiency point either way");
   });
 
   it("on the page, for a curve that starts inside the contour: the curve's start, the one crossing, what the engine does, and the choice", () => {
     // Invented: the curve starts at 35 m³/h inside the 74 % contour and crosses it at 50; middle 42.5.
     const start: UnreadPeak = { ...p, from: 35, to: 50, midpoint: 42.5, fromStart: true };
     expect(peakWarning(start, "m3/h")).toBe(
-      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 %; the peak lies there or before the curve's start, so the efficiency there is left blank: the engine reads no efficiency before its first row past 50.0 m³/h and puts the best-efficiency point after the contour, below 74 %. Tick the box to take the middle of the span, 42.5 m³/h, as the best-efficiency point at 74 %.",
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 %; the peak lies there or before the curve's start, so the efficiency there is left blank: it is written from its first row past 50.0 m³/h, falling from it, and none before it (no efficiency or shaft power from the curve's start at 35.0 m³/h to 50.0 m³/h). No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, and this curve's highest efficiency written is its first row, the peak at or before the start of its efficiency data (no BEP or preferred operating region is judged). Tick the box to write the middle of the span, 42.5 m³/h, at 74 %: the efficiency (understated) and shaft power (overstated) then start at 42.5 m³/h, still with no best-efficiency point.",
     );
     expect(peakWarning({ ...start, taken: true, next: 78 }, "m3/h")).toBe(
-      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or before the curve's start. The middle of that span, 42.5 m³/h, is written at 74 % and taken as the best-efficiency point (its efficiency understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency before 42.5 m³/h.",
+      "Curve 2 (160 mm, 2900 rpm): the peak is not traced. The curve starts inside the 74 % contour: it crosses it once, at 50.0 m³/h, and from the curve's start at 35.0 m³/h to there the contours say only that the efficiency is above 74 % and below 78 %; the peak lies there or before the curve's start. The middle of that span, 42.5 m³/h, is written at 74 % (understated by less than 4 points, its flow a guess within the span), the rest of the span blank: the efficiency is written from 42.5 m³/h, read below 74 % from there to 50.0 m³/h (shaft power overstated), and none before it (no efficiency or shaft power from the curve's start at 35.0 m³/h to 42.5 m³/h). No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, and this curve's highest efficiency written is its first row, the peak at or before the start of its efficiency data (no BEP or preferred operating region is judged).",
     );
-    expect(peakNote([start], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from the curve's start at 35.0 m³/h to 50.0 m³/h");
+    expect(peakNote([start], "m3/h")).toBe("peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % from the curve's start at 35.0 m³/h to 50.0 m³/h, no BEP (peak at or before the start of the efficiency data)");
+    expect(peakBoxLabel(start, "m3/h")).toBe("Write the middle of the span inside the 74 % contour, 42.5 m³/h, at 74 % for Curve 2: efficiency and shaft power from 42.5 m³/h, no best-efficiency point either way");
   });
 
   it("on the page, for a curve that crosses one contour once: the level, the one flow, and what the engine would do with one value", () => {

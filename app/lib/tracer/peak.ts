@@ -11,7 +11,10 @@
  * the mirror (`fromStart`). A curve that crosses one contour once (`lone`) has its efficiency at that
  * one flow only, which makes no efficiency curve: the CSV writes none for it. Only when the user
  * confirms it is the middle of that span (in axis space: the middle on the paper) written as a row at
- * the contour's level and so taken as the BEP. These sentences say which, with the numbers, on the
+ * the contour's level: between two crossings it is then taken as the BEP; at the curve's end or start
+ * it is the last (or first) efficiency row, and the engine, which knows a BEP only at an interior peak
+ * of the efficiency rows (pumpCurve.ts), gives that curve none, ticked or not: the row only carries the
+ * efficiency and shaft power to the middle. These sentences say which, with the numbers, on the
  * tracer page (`peakWarning`) and in the source line the revision's note carries (`peakNote`, short:
  * the line has `SOURCE_MAX` characters).
  */
@@ -70,24 +73,45 @@ const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart
 
 /**
  * The warning for a curve that ends (`toEnd`) or starts (`fromStart`) inside its innermost contour: no crossing closes
- * the span on that side, so the efficiency column stops at the contour (the engine reads none past its last row, or
- * before its first, and puts the best-efficiency point outside the contour, below the level), and the peak may lie past
- * the curve's end or before its start. One text for both sides, its words mirrored.
+ * the span on that side, so the efficiency rows stop at the contour: they rise to their last row (or fall from their
+ * first), the highest efficiency written. The engine knows a best-efficiency point only at an interior peak of the rows
+ * with efficiency (pumpCurve.ts, warning `bep-not-published`), so this curve has none, ticked or not: the box only
+ * writes the span's middle at the level, which carries the efficiency (understated) and so the shaft power (overstated)
+ * from the crossing to there, the peak still at or past the end of the data. One text for both sides, its words mirrored.
  */
 function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): string {
   const u = flowUnitText(flowUnit);
   const end = side === "end";
   const crossing = end ? p.from : p.to;
+  const edge = end ? p.to : p.from;
   const span = end
     ? `from there to the curve's end at ${fmtNum(p.to)} ${u}`
     : `from the curve's start at ${fmtNum(p.from)} ${u} to there`;
   const head =
     `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(crossing)} ${u}, ` +
     `and ${span} the contours say only that the efficiency is ${bound(p)}; the peak lies there or ${end ? "past the curve's end" : "before the curve's start"}`;
-  const beyond = end ? "past" : "before";
+  const noBep =
+    `No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, ` +
+    `and this curve's highest efficiency written is its ${end ? "last" : "first"} row, the peak at or ${end ? "past the end" : "before the start"} of its efficiency data (no BEP or preferred operating region is judged).`;
+  const none = (at: string) => `none ${end ? "past" : "before"} it (no efficiency or shaft power ${end ? `from ${at} to the curve's end at ${fmtNum(edge)} ${u}` : `from the curve's start at ${fmtNum(edge)} ${u} to ${at}`})`;
+  const mid = `${fmtNum(p.midpoint)} ${u}`;
   return p.taken
-    ? `${head}. The middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: the engine reads no efficiency ${beyond} ${fmtNum(p.midpoint)} ${u}.`
-    : `${head}, so the efficiency there is left blank: the engine reads no efficiency ${beyond} its ${end ? "last row before" : "first row past"} ${fmtNum(crossing)} ${u} and puts the best-efficiency point ${end ? "before" : "after"} the contour, below ${typed(p.level)} %. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+    ? `${head}. The middle of that span, ${mid}, is written at ${typed(p.level)} % (understated ${understated(p)}, its flow a guess within the span), the rest of the span blank: ` +
+        `the efficiency is written ${end ? "up to" : "from"} ${mid}, read below ${typed(p.level)} % ${end ? `from ${fmtNum(crossing)} ${u} to there` : `from there to ${fmtNum(crossing)} ${u}`} (shaft power overstated), and ${none(mid)}. ${noBep}`
+    : `${head}, so the efficiency there is left blank: it is written ${end ? "up to its last row before" : "from its first row past"} ${fmtNum(crossing)} ${u}, ${end ? "rising to it" : "falling from it"}, and ${none(`${fmtNum(crossing)} ${u}`)}. ${noBep} ` +
+        `Tick the box to write the middle of the span, ${mid}, at ${typed(p.level)} %: the efficiency (understated) and shaft power (overstated) then ${end ? "reach" : "start at"} ${mid}, still with no best-efficiency point.`;
+}
+
+/**
+ * The box's label beside a span's warning: for a span between two crossings it takes the middle as the best-efficiency
+ * point; for one at the curve's end or start it writes the middle at the level, which carries the efficiency and shaft
+ * power to there but gives no best-efficiency point (edgeWarning).
+ */
+export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string {
+  const level = `${typed(p.level)} %`;
+  if (!p.toEnd && !p.fromStart) return `Take the middle of the ${level} contour as ${p.curve}’s best-efficiency point`;
+  const mid = `${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}`;
+  return `Write the middle of the span inside the ${level} contour, ${mid}, at ${level} for ${p.curve}: efficiency and shaft power ${p.toEnd ? "up to" : "from"} ${mid}, no best-efficiency point either way`;
 }
 
 /**
@@ -114,7 +138,9 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
     : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}`
     : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`;
   const one = (p: UnreadPeak) =>
-    `${keyText(p)} above ${typed(p.level)} % ${span(p)}${p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : ""}`;
+    `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
+      !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
+      : `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (peak at or ${p.toEnd ? "past the end" : "before the start"} of the efficiency data)`}`;
   const spans = ps.filter((p) => !p.lone), lone = ps.filter((p) => p.lone);
   return [
     spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",

@@ -1,0 +1,101 @@
+// What the tracer's peak texts (lib/tracer/peak.ts) say of the best-efficiency point is what the engine does with the
+// tracer's own CSV: one invented chart (a head curve clicked along H = 50 − 0.003·Q², closed rectangular 70 % and 74 %
+// contours), a span between two crossings, a curve that ends inside the 74 % contour and one that starts inside it, each
+// with the box ticked and unticked. The claims are read from the words; the facts from createPumpCurve on analyseCsv.
+import { describe, expect, it } from "vitest";
+import { createPumpCurve, shaftPowerAt } from "~/engine";
+import { analyseCsv } from "~/lib/import";
+import { peakBoxLabel, peakWarning } from "~/lib/tracer/peak";
+import { paper } from "~/lib/tracer/test-chart";
+import { calibrations, csvOf, initialState, unreadPeaks, type Curve, type TracerState } from "./model";
+
+const ref = (q: number, h: number, value: number) => ({ u: paper(q, h)[0], v: paper(q, h)[1], value });
+const px = (q: number, h: number) => ({ u: paper(q, h)[0], v: paper(q, h)[1] });
+const headOf = (q: number) => 50 - 0.003 * q * q; // invented
+/** The head curve clicked at every m³/h from q0 to q1. */
+const head = (q0: number, q1: number, taken: boolean): Curve => ({
+  id: 1, panelId: 1, kind: "curve", impellerMm: 200, speedRpm: 2900, level: 0, peakAtMidpoint: taken,
+  points: Array.from({ length: q1 - q0 + 1 }, (_, i) => px(q0 + i, headOf(q0 + i))),
+});
+/** A closed contour: the rectangle from flow a to b over heads 5–60 m, so the head curve crosses it at a and b (invented). */
+const box = (id: number, level: number, a: number, b: number): Curve => ({
+  id, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level, closed: true, points: [px(a, 5), px(b, 5), px(b, 60), px(a, 60)],
+});
+const state = (q0: number, q1: number, taken: boolean): TracerState => ({
+  ...initialState(), model: "Invented 50-200", xRefs: [ref(10, 0, 10), ref(90, 0, 90)],
+  panels: [{ id: 1, quantity: "head", unit: "m", scale: "linear", refs: [ref(0, 10, 10), ref(0, 50, 50)] }],
+  curves: [head(q0, q1, taken), box(2, 70, 20, 80), box(3, 74, 30, 60)],
+});
+/** The one span's warning and label, and the engine's curve from the page's CSV (flows back in m³/h). */
+function read(s: TracerState) {
+  const cals = calibrations(s);
+  const ps = unreadPeaks(s, cals);
+  expect(ps).toHaveLength(1);
+  const [set] = analyseCsv(csvOf(s, cals)).result.curveSets;
+  const curve = createPumpCurve({ points: set.points });
+  const effRows = set.points.filter((p) => p.efficiency !== undefined).map((p) => p.flow * 3600);
+  return { p: ps[0], text: peakWarning(ps[0], "m3/h"), label: peakBoxLabel(ps[0], "m3/h"), curve, effRows };
+}
+const num = (m: RegExpMatchArray | null) => (m ? Number(m[1]) : NaN);
+const power = (curve: ReturnType<typeof createPumpCurve>, q: number) => shaftPowerAt(curve, q / 3600, 1000);
+
+// Interior span 30–60 m³/h (crossings 70 % at 20, 74 % at 30 and 60, 70 % at 80); end inside: clicked 0–45 (74 % crossed
+// at 30, end 45); start inside: clicked 40–95 (start 40, 74 % crossed at 60). Middles 45, 37.5 and 50 m³/h (construction).
+const cases = [
+  { name: "span between two crossings", edge: [false, false], q0: 0, q1: 95, from: 30, to: 60, mid: 45 },
+  { name: "curve that ends inside the 74 % contour", edge: [true, false], q0: 0, q1: 45, from: 30, to: 45, mid: 37.5 },
+  { name: "curve that starts inside the 74 % contour", edge: [false, true], q0: 40, q1: 95, from: 40, to: 60, mid: 50 },
+];
+
+describe("the peak warning's word on the best-efficiency point is the engine's", () => {
+  for (const c of cases) {
+    for (const taken of [false, true]) {
+      it(`${c.name}, box ${taken ? "ticked" : "unticked"}`, () => {
+        const { p, text, curve, effRows } = read(state(c.q0, c.q1, taken));
+        expect([p.toEnd === true, p.fromStart === true]).toEqual(c.edge);
+        // The span the page names (within 0.05 m³/h of the construction: pixel rounding through the calibration).
+        expect(Math.abs(p.from - c.from)).toBeLessThan(0.05);
+        expect(Math.abs(p.to - c.to)).toBeLessThan(0.05);
+        expect(Math.abs(p.midpoint - c.mid)).toBeLessThan(0.05);
+        // What the words claim: no BEP; a BEP at the middle taken; a BEP outside the contour.
+        const none = /No best-efficiency point is known for this curve/.test(text);
+        const atMiddle = num(text.match(/middle of that span, ([\d.]+) m³\/h, is written at [\d.]+ % and taken as the best-efficiency point/));
+        const outside = /puts the best-efficiency point (outside|before|after) the contour/.test(text);
+        expect([none, Number.isFinite(atMiddle), outside].filter(Boolean)).toHaveLength(1);
+        expect(curve.bep === null).toBe(none);
+        expect(curve.warnings.some((w) => w.code === "bep-not-published")).toBe(none);
+        if (Number.isFinite(atMiddle)) expect(Math.abs(curve.bep!.flow * 3600 - atMiddle)).toBeLessThanOrEqual(0.05); // the text's 0.1 m³/h
+        if (outside) expect(curve.bep!.flow * 3600 <= p.from || curve.bep!.flow * 3600 >= p.to).toBe(true);
+        // Where the words say the efficiency (and shaft power) is written up to, or from.
+        const upTo = num(text.match(/efficiency is written up to ([\d.]+) m³\/h/)), from = num(text.match(/efficiency is written from ([\d.]+) m³\/h/));
+        const rowBefore = num(text.match(/written up to its last row before ([\d.]+) m³\/h/)), rowPast = num(text.match(/written from its first row past ([\d.]+) m³\/h/));
+        if (Number.isFinite(upTo)) expect(Math.abs(effRows.at(-1)! - upTo)).toBeLessThanOrEqual(0.05);
+        if (Number.isFinite(from)) expect(Math.abs(effRows[0] - from)).toBeLessThanOrEqual(0.05);
+        if (Number.isFinite(rowBefore)) expect(effRows.at(-1)!).toBeLessThan(rowBefore);
+        if (Number.isFinite(rowPast)) expect(effRows[0]).toBeGreaterThan(rowPast);
+        const stop = Number.isFinite(upTo) ? upTo : rowBefore, begin = Number.isFinite(from) ? from : rowPast;
+        if (Number.isFinite(stop)) expect([power(curve, effRows.at(-1)!) !== null, power(curve, stop + 1)]).toEqual([true, null]);
+        if (Number.isFinite(begin)) expect([power(curve, effRows[0]) !== null, power(curve, begin - 1)]).toEqual([true, null]);
+        expect(p.toEnd || p.fromStart ? [stop, begin].filter(Number.isFinite) : []).toHaveLength(p.toEnd || p.fromStart ? 1 : 0);
+      });
+    }
+  }
+});
+
+describe("the box's label says what ticking it does to the best-efficiency point", () => {
+  for (const c of cases) {
+    it(c.name, () => {
+      const { label } = read(state(c.q0, c.q1, false));
+      const ticked = read(state(c.q0, c.q1, true));
+      const takesBep = /as Curve 1’s best-efficiency point$/.test(label);
+      expect(takesBep || /no best-efficiency point either way$/.test(label)).toBe(true);
+      expect(ticked.curve.bep !== null).toBe(takesBep);
+      if (takesBep) expect(Math.abs(ticked.curve.bep!.flow * 3600 - c.mid)).toBeLessThan(0.05);
+      // An edge span's label: the efficiency (and shaft power) up to, or from, the middle once ticked.
+      const upTo = num(label.match(/shaft power up to ([\d.]+) m³\/h/)), from = num(label.match(/shaft power from ([\d.]+) m³\/h/));
+      if (Number.isFinite(upTo)) expect(Math.abs(ticked.effRows.at(-1)! - upTo)).toBeLessThanOrEqual(0.05);
+      if (Number.isFinite(from)) expect(Math.abs(ticked.effRows[0] - from)).toBeLessThanOrEqual(0.05);
+      expect([upTo, from].filter(Number.isFinite)).toHaveLength(c.edge.includes(true) ? 1 : 0);
+    });
+  }
+});
