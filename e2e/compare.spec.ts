@@ -53,7 +53,7 @@ test("Unsaved changes on the system editor: leaving by a link asks, staying keep
   await page.goto(systemPath);
   await expect(page.getByLabel("Flow").first()).toHaveValue("41");
   await expect(editor).toHaveAttribute("data-unsaved", "no");
-  await page.getByLabel("Head").first().fill("17");
+  await page.getByLabel(/^Head/).first().fill("17");
   await expect(editor).toHaveAttribute("data-unsaved", "yes");
   const asked = new Promise<string>((resolve) => page.once("dialog", (d) => (resolve(d.type()), void d.accept())));
   await page.close({ runBeforeUnload: true });
@@ -85,7 +85,7 @@ test("A viewer sees a system and its project read-only, with a notice; an engine
 async function newSystemWithDuty(page: Page, label: string) {
   const made = await newSystem(page, label);
   await page.getByLabel("Flow").first().fill("36");
-  await page.getByLabel("Head").first().fill("16");
+  await page.getByLabel(/^Head/).first().fill("16");
   await page.getByRole("button", { name: "Save system" }).click();
   await expect(page.getByText("System saved.")).toBeVisible();
   return made;

@@ -20,7 +20,7 @@ test("As an engineer I build a system from pipe runs, watch its curve, find pump
   await page.getByLabel("Length").nth(1).fill("120");
   await expect(page.getByText("Chart shows unsaved changes")).toBeVisible();
   await page.getByLabel("Flow").first().fill("36");
-  await page.getByLabel("Head").first().fill("16");
+  await page.getByLabel(/^Head/).first().fill("16");
   await page.getByRole("button", { name: "Save system" }).click();
   await expect(page.getByText("System saved.")).toBeVisible();
 
