@@ -67,7 +67,7 @@ export interface OperatingPointResult {
  * @param curve pump curve (prepared or raw; flow m³/s, head m)
  * @param systemHead function flow m³/s → system head m
  * @param options.subdivisions samples per curve interval for bracketing (count, dimensionless; a whole number 1–10 000, default 8)
- * @param options.maxIterations Brent iteration cap per root (count, dimensionless; default 100)
+ * @param options.maxIterations Brent iteration cap per root (count, dimensionless; a whole number 1–10 000, default 100)
  */
 export function solveOperatingPoint(
   curve: PumpCurve | PumpCurveInput,
@@ -82,6 +82,11 @@ export function solveOperatingPoint(
  * resolves roots closer than a ten-thousandth of an interval apart, and the samples are held in memory at once.
  */
 const MAX_SUBDIVISIONS = 10_000;
+/**
+ * Most Brent iterations per root `solveOperatingPoint` takes (count; engine bound): Brent converges in tens of steps and
+ * falls back to bisection (see roots.ts), so a cap past 10 000 only hides a typo (NaN, Infinity or 2.5 were taken before).
+ */
+const MAX_ITERATIONS = 10_000;
 
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
@@ -93,7 +98,8 @@ function solveInner(
   // Samples per interval: a whole number 1–MAX_SUBDIVISIONS (more gains nothing and only costs memory and time).
   const sub = requireInteger("subdivisions", options.subdivisions ?? 8, 1);
   if (sub > MAX_SUBDIVISIONS) throw new EngineInputError("subdivisions", `must be at most ${MAX_SUBDIVISIONS} (got ${sub})`);
-  const maxIt = Math.max(1, Math.round(options.maxIterations ?? 100));
+  const maxIt = requireInteger("maxIterations", options.maxIterations ?? 100, 1);
+  if (maxIt > MAX_ITERATIONS) throw new EngineInputError("maxIterations", `must be at most ${MAX_ITERATIONS} (got ${maxIt})`);
   const g = (q: number) => {
     const hs = systemHead(q);
     requireFinite("systemHead(flow)", hs);
