@@ -78,6 +78,26 @@ export function solveOperatingPoint(
 }
 
 /**
+ * The crossing a pump reaches from rest (common practice, from memory): started against a closed check valve, it runs only
+ * when its head at the first flow is not below the system's there (equal: it stays at that point, dead-head), and then
+ * settles at the first crossing where its head falls below the system's (a crossing where it rises above it again is
+ * unstable: the flow runs on). The one rule `solveOperatingPoint` and the charts' sampled curves (`crossingOf`) apply.
+ * @param atFirst pump head − system head at the first flow, m (or any one head unit)
+ * @param afterSigns for each crossing in ascending flow (a flow where the heads are equal at the first one included), the
+ *   sign of pump head − system head just past it: −1, +1, or 0 where nothing lies past it (dimensionless)
+ * @returns the index of the crossing reached; "cannot-start" when the pump's head at the first flow is below the system's;
+ *   "beyond-curve-end" when no crossing is one where the pump's head falls below the system's
+ */
+export function crossingFromRest(atFirst: number, afterSigns: readonly number[]): number | "cannot-start" | "beyond-curve-end" {
+  requireFinite("atFirst", atFirst);
+  if (!Array.isArray(afterSigns)) throw new EngineInputError("afterSigns", "must be a list of signs (−1, 0, +1)");
+  afterSigns.forEach((x, i) => requireFinite(`afterSigns[${i}]`, x));
+  if (atFirst < 0) return "cannot-start";
+  const i = afterSigns.findIndex((x) => x <= 0);
+  return i < 0 ? "beyond-curve-end" : i;
+}
+
+/**
  * Most samples per curve interval `solveOperatingPoint` takes (count; engine bound): 10 000 per interval already
  * resolves roots closer than a ten-thousandth of an interval apart, and the samples are held in memory at once.
  */
@@ -152,7 +172,8 @@ function solveInner(
     `${which} is unstable: the pump's head rises above the system's again past it, so a pump pushed past it runs on ${runsOnTo(i)}`;
   // Common practice (from memory): a pump starts against a closed check valve from rest, so its head at zero flow (the
   // shut-off head) must exceed the system's head there; below it the valve never opens, whatever crossings lie further out.
-  if (gs[0] < 0) {
+  const fromRest = crossingFromRest(gs[0], afterSign);
+  if (fromRest === "cannot-start") {
     const all = roots.map((_, i) => i);
     const unreached = `the curves cross at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
     const crossings = `; ${unreached}`;
@@ -165,12 +186,12 @@ function solveInner(
   // From rest (pump head above the system's at the first point, or equal and falling below it) the flow rises to the first
   // crossing where the pump's head falls under the system's: the point it settles at. A start exactly at equal heads with the
   // pump's head rising above the system's next is no settling point: the flow moves on.
-  const chosenAt = afterSign.findIndex((s) => s <= 0); // 0: nothing sampled past it (the curve's last point)
-  if (chosenAt < 0) {
+  if (fromRest === "beyond-curve-end") {
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
       message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
   }
+  const chosenAt = fromRest; // a sign of 0 past it: nothing sampled past it (the curve's last point)
   const chosen = roots[chosenAt];
   const op = points[chosenAt];
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re

@@ -199,6 +199,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       // solve) NaN and Infinity were taken without a word, and 0 or 2.5 were rounded.
       [(x) => E.solveOperatingPoint(curve, () => 1000, { maxIterations: x }), 100, [0, 2.5, 10_001, 1e7]],
       [(x) => E.solveOperatingPoint(curve, () => 10, { maxIterations: x }), 100, [0, 2.5, 10_001]]],
+    crossingFromRest: [[(x) => E.crossingFromRest(x, [-1]), 1, []], [(x) => E.crossingFromRest(1, [x]), -1, []]],
     operatingPointInSystem: [[(x) => E.operatingPointInSystem(curve, { ...sys, staticHead: x }), 10, []]],
     operatingPoint: [[(x) => E.operatingPoint(samplePoints(), { staticHead: x, segments: [], temperatureC: 20 }), 10, []]],
     prepareSystem: [[(x) => E.prepareSystem({ ...sys, staticHead: x }), 10, []]],
