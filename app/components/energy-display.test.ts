@@ -90,10 +90,10 @@ describe("the incomplete mark counts steps in the words the steps use", () => {
 
 describe("a downhill system under system-curve control (static −1 m): the steps below 0 m run by gravity", () => {
   const e = energyOf({ staticLow: -1, staticHigh: -1, ...energy({ control: "system-curve" }) });
-  it("the 75/50/25 % steps say 'met by gravity, pump stopped' with the assumption; the 100 % step is met at its lowest on-curve speed, throttled", () => {
+  it("the 75/50/25 % steps say 'met, no pump head needed, pump stopped' with the assumption; the 100 % step is met at its lowest on-curve speed, throttled", () => {
     const p = panel(e);
-    expect(p).toMatch(/met by gravity, pump stopped: the system needs ⟦head\|-0\.139084⟧/);
-    expect(p.match(/met by gravity, pump stopped/g)).toHaveLength(3);
+    expect(p).toMatch(/met, no pump head needed, pump stopped: the system needs ⟦head\|-0\.139084⟧/);
+    expect(p.match(/met, no pump head needed, pump stopped/g)).toHaveLength(3);
     // 36 m³/h first reaches the curve's 55 m³/h end at 36/55 = 65.5 % speed (affinity laws), where the pump gives
     // 0.6545² × 7 m = 3.00 m (hand algebra): held there, the surplus throttled (dutyCycle.ts, common practice). Was "▲ not met"
     // and the cycle "(incomplete: 1 of 4 steps not met)".
@@ -103,7 +103,7 @@ describe("a downhill system under system-curve control (static −1 m): the step
     expect(incompleteMark(e.cycle)).toBe("");
     expect(e.cycle!.complete).toBe(true);
     expect(cycleNoteLines(e.cycle!)[0]).toMatch(/^Step at 100 % flow, 240 h: met, throttled at the lowest on-curve speed — at 65\.5 % speed/);
-    expect(cycleNoteLines(e.cycle!)[1]).toMatch(/^Step at 75 % flow, 600 h: met by gravity, pump stopped — the system needs/);
+    expect(cycleNoteLines(e.cycle!)[1]).toMatch(/^Step at 75 % flow, 600 h: met, no pump head needed, pump stopped — the system needs/);
   });
   it("static −2 m: the whole cycle by gravity, 0 kWh, complete (was refused: 'must be positive at the design flow for a pressure set point')", () => {
     const all = energyOf({ staticLow: -2, staticHigh: -2, ...energy({ control: "system-curve" }) });

@@ -27,7 +27,7 @@ describe("system-curve control on a downhill system", () => {
     expect(s.energyKWh).toBe(0);
     expect(s.electricalPower).toBe(0);
     expect(s.speedRatio).toBe(0);
-    expect(s.message).toMatch(/^the system needs ⟦head\|-0\.75⟧ at ⟦flow\|[^⟧]+⟧, not above 0: gravity alone drives this flow and a valve throttles it/);
+    expect(s.message).toMatch(/^the system needs ⟦head\|-0\.75⟧ at ⟦flow\|[^⟧]+⟧, not above 0: its static head and pressure difference, less the pipe losses, drive this flow without a pump and a valve throttles it/); // no cause given: both named
     expect(s.message).toMatch(/pump is taken as stopped, 0 kWh \(assumed: .*check valve.*a pump kept running here is not counted\)/);
     expect(s.message).not.toMatch(/not met/);
     expect(r.steps[0].status).toBe("ok"); // 3 m at the design flow: the pump runs

@@ -33,13 +33,15 @@
  *   such a step at max(control head, system head) instead would price a controller that is not the mode chosen.
  *   Hence, step by step where all are met, energy: constant pressure ≥ proportional pressure ≥ system curve;
  *   a step not met drops out of the total (`complete` false), so compare totals only when complete.
- *   Downhill (`system-curve` only: a pressure set point must be above 0): where the system's head at the step's
- *   flow is ≤ 0, gravity alone drives at least that flow, so no pump head is needed and a valve throttles the flow
- *   to the step's. The step (status `gravity-flow`) takes the pump as stopped, 0 kWh, and counts as met. Assumed
- *   (common practice for gravity-fed transfer, from memory): the flow passes the stopped pump or a bypass; the
- *   stopped pump's own loss and a check valve's are not in the system curve, so the step's text says to check that
- *   gravity still drives the flow through them. A pump that must keep running there (a minimum speed, a process
- *   rule) is a design matter this model does not price: its energy at that step is not counted, as the text says.
+ *   No pump head needed (`system-curve` only: a pressure set point must be above 0): where the system's head at the
+ *   step's flow is ≤ 0, its static head and pressure difference (gravity, a lower pressure on the discharge surface, or
+ *   both) drive at least that flow, so no pump head is needed and a valve throttles the flow to the step's. The step
+ *   (status `gravity-flow`, the name kept) takes the pump as stopped, 0 kWh, and counts as met; its text names the cause
+ *   with the system's parts where the caller gives them (`noHeadReason`). Assumed (common practice for gravity-fed
+ *   transfer, from memory): the flow passes the stopped pump or a bypass; the stopped pump's own loss and a check valve's
+ *   are not in the system curve, so the step's text says to check that enough head is left to drive the flow through
+ *   them. A pump that must keep running there (a minimum speed, a process rule) is a design matter this model does not
+ *   price: its energy at that step is not counted, as the text says.
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -181,6 +183,12 @@ export interface DutyCycleInput {
   driveEfficiency: number | null;
   /** Lowest speed ratio (default 0.3, as the verdict's speed range). */
   minSpeedRatio?: number;
+  /**
+   * Why the system needs no pump head at a flow (m³/s) where its head is ≤ 0, in words with its parts and numbers — one
+   * clause naming what drives the flow (the caller knows the system's static head and pressure difference; without it
+   * the step names both together).
+   */
+  noHeadReason?: (flow: number) => string;
 }
 
 /**
@@ -191,6 +199,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (!input || typeof input !== "object") throw new EngineInputError("input", "is required");
   const curve = ensurePumpCurve(input.curve);
   if (typeof input.systemHead !== "function") throw new EngineInputError("systemHead", "must be a function of flow");
+  if (input.noHeadReason !== undefined && typeof input.noHeadReason !== "function") throw new EngineInputError("noHeadReason", "must be a function of flow giving words");
   const qDesign = requirePositive("designFlow", input.designFlow);
   if (!isControlMode(input.mode)) throw new EngineInputError("mode", `must be one of ${CONTROL_MODES.map((m) => m.id).join(", ")}`);
   const mode = input.mode;
@@ -254,7 +263,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         return {
           ...base, head: null, speedRatio: 0, efficiency: null, shaftPower: 0, loadFraction: 0, motorEfficiency: null, driveEfficiency: null, electricalPower: 0, energyKWh: 0,
           status: "gravity-flow",
-          message: `the system needs ${qt("head", head)} at ${qt("flow", q)}, not above 0: gravity alone drives this flow and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh (assumed: the flow passes the stopped pump or a bypass — check that the stopped pump's and any check valve's loss, not in the system curve, leave gravity enough head; a pump kept running here is not counted)`,
+          message: `the system needs ${qt("head", head)} at ${qt("flow", q)}, not above 0: ${input.noHeadReason ? input.noHeadReason(q) : "its static head and pressure difference, less the pipe losses, drive this flow without a pump"} and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh (assumed: the flow passes the stopped pump or a bypass — check that the stopped pump's and any check valve's loss, not in the system curve, leave enough head to drive it; a pump kept running here is not counted)`,
         };
       }
       if (mode !== "system-curve") {

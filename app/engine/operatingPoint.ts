@@ -67,7 +67,7 @@ export interface OperatingPointResult {
  * @param curve pump curve (prepared or raw; flow m³/s, head m)
  * @param systemHead function flow m³/s → system head m
  * @param options.subdivisions samples per curve interval for bracketing (count, dimensionless; a whole number 1–10 000, default 8)
- * @param options.maxIterations Brent iteration cap per root (count, dimensionless; default 100)
+ * @param options.maxIterations Brent iteration cap per root (count, dimensionless; a whole number 1–10 000, default 100)
  */
 export function solveOperatingPoint(
   curve: PumpCurve | PumpCurveInput,
@@ -78,10 +78,35 @@ export function solveOperatingPoint(
 }
 
 /**
+ * The crossing a pump reaches from rest (common practice, from memory): started against a closed check valve, it runs only
+ * when its head at the first flow is not below the system's there (equal: it stays at that point, dead-head), and then
+ * settles at the first crossing where its head falls below the system's (a crossing where it rises above it again is
+ * unstable: the flow runs on). The one rule `solveOperatingPoint` and the charts' sampled curves (`crossingOf`) apply.
+ * @param atFirst pump head − system head at the first flow, m (or any one head unit)
+ * @param afterSigns for each crossing in ascending flow (a flow where the heads are equal at the first one included), the
+ *   sign of pump head − system head just past it: −1, +1, or 0 where nothing lies past it (dimensionless)
+ * @returns the index of the crossing reached; "cannot-start" when the pump's head at the first flow is below the system's;
+ *   "beyond-curve-end" when no crossing is one where the pump's head falls below the system's
+ */
+export function crossingFromRest(atFirst: number, afterSigns: readonly number[]): number | "cannot-start" | "beyond-curve-end" {
+  requireFinite("atFirst", atFirst);
+  if (!Array.isArray(afterSigns)) throw new EngineInputError("afterSigns", "must be a list of signs (−1, 0, +1)");
+  afterSigns.forEach((x, i) => requireFinite(`afterSigns[${i}]`, x));
+  if (atFirst < 0) return "cannot-start";
+  const i = afterSigns.findIndex((x) => x <= 0);
+  return i < 0 ? "beyond-curve-end" : i;
+}
+
+/**
  * Most samples per curve interval `solveOperatingPoint` takes (count; engine bound): 10 000 per interval already
  * resolves roots closer than a ten-thousandth of an interval apart, and the samples are held in memory at once.
  */
 const MAX_SUBDIVISIONS = 10_000;
+/**
+ * Most Brent iterations per root `solveOperatingPoint` takes (count; engine bound): Brent converges in tens of steps and
+ * falls back to bisection (see roots.ts), so a cap past 10 000 only hides a typo (NaN, Infinity or 2.5 were taken before).
+ */
+const MAX_ITERATIONS = 10_000;
 
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
@@ -93,7 +118,8 @@ function solveInner(
   // Samples per interval: a whole number 1–MAX_SUBDIVISIONS (more gains nothing and only costs memory and time).
   const sub = requireInteger("subdivisions", options.subdivisions ?? 8, 1);
   if (sub > MAX_SUBDIVISIONS) throw new EngineInputError("subdivisions", `must be at most ${MAX_SUBDIVISIONS} (got ${sub})`);
-  const maxIt = Math.max(1, Math.round(options.maxIterations ?? 100));
+  const maxIt = requireInteger("maxIterations", options.maxIterations ?? 100, 1);
+  if (maxIt > MAX_ITERATIONS) throw new EngineInputError("maxIterations", `must be at most ${MAX_ITERATIONS} (got ${maxIt})`);
   const g = (q: number) => {
     const hs = systemHead(q);
     requireFinite("systemHead(flow)", hs);
@@ -146,7 +172,8 @@ function solveInner(
     `${which} is unstable: the pump's head rises above the system's again past it, so a pump pushed past it runs on ${runsOnTo(i)}`;
   // Common practice (from memory): a pump starts against a closed check valve from rest, so its head at zero flow (the
   // shut-off head) must exceed the system's head there; below it the valve never opens, whatever crossings lie further out.
-  if (gs[0] < 0) {
+  const fromRest = crossingFromRest(gs[0], afterSign);
+  if (fromRest === "cannot-start") {
     const all = roots.map((_, i) => i);
     const unreached = `the curves cross at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
     const crossings = `; ${unreached}`;
@@ -159,12 +186,12 @@ function solveInner(
   // From rest (pump head above the system's at the first point, or equal and falling below it) the flow rises to the first
   // crossing where the pump's head falls under the system's: the point it settles at. A start exactly at equal heads with the
   // pump's head rising above the system's next is no settling point: the flow moves on.
-  const chosenAt = afterSign.findIndex((s) => s <= 0); // 0: nothing sampled past it (the curve's last point)
-  if (chosenAt < 0) {
+  if (fromRest === "beyond-curve-end") {
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
       message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
   }
+  const chosenAt = fromRest; // a sign of 0 past it: nothing sampled past it (the curve's last point)
   const chosen = roots[chosenAt];
   const op = points[chosenAt];
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re

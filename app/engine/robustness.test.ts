@@ -194,7 +194,12 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     npshrAt: [[(x) => E.npshrAt(curve, x), 0.01, []]],
     flowsAtHead: [[(x) => E.flowsAtHead(curve, x), 20, []]],
     sampleCurve: [[(x) => E.sampleCurve(curve, x), 61, [1, 1e6]]],
-    solveOperatingPoint: [[(x) => E.solveOperatingPoint(curve, () => x), 10, []], [(x) => E.solveOperatingPoint(curve, () => 10, { subdivisions: x }), 8, [0, 2.5, 10_001, 1e7]]],
+    solveOperatingPoint: [[(x) => E.solveOperatingPoint(curve, () => x), 10, []], [(x) => E.solveOperatingPoint(curve, () => 10, { subdivisions: x }), 8, [0, 2.5, 10_001, 1e7]],
+      // maxIterations as subdivisions: a whole number 1–10 000 (engine bound); against a system above the pump (no root to
+      // solve) NaN and Infinity were taken without a word, and 0 or 2.5 were rounded.
+      [(x) => E.solveOperatingPoint(curve, () => 1000, { maxIterations: x }), 100, [0, 2.5, 10_001, 1e7]],
+      [(x) => E.solveOperatingPoint(curve, () => 10, { maxIterations: x }), 100, [0, 2.5, 10_001]]],
+    crossingFromRest: [[(x) => E.crossingFromRest(x, [-1]), 1, []], [(x) => E.crossingFromRest(1, [x]), -1, []]],
     operatingPointInSystem: [[(x) => E.operatingPointInSystem(curve, { ...sys, staticHead: x }), 10, []]],
     operatingPoint: [[(x) => E.operatingPoint(samplePoints(), { staticHead: x, segments: [], temperatureC: 20 }), 10, []]],
     prepareSystem: [[(x) => E.prepareSystem({ ...sys, staticHead: x }), 10, []]],

@@ -17,7 +17,7 @@
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
+import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
 import { evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
 import { explainRanks } from "./searchExplain.ts";
 
@@ -144,7 +144,9 @@ export function searchDuty(
         if ((h1 !== null && h1 > hd) || (h1 === null && qd < fMin[e])) {
           const r = solveScale(e, k, trimMinRatio, 1);
           const dia = idx.diameter[e], dMin = idx.minDiameter[e];
-          if (r !== null && (dMin < 0 || dia < 0 || dia * r >= dMin * (1 - 1e-9))) {
+          // The model's smallest impeller with the verdict's and scaleByTrim's one allowance (LIMIT_ROUNDOFF): a trim the
+          // verdict finds inside the catalogue is not refused here (it was 1e-9 here, 1e-6 there).
+          if (r !== null && (dMin < 0 || dia < 0 || dia * r >= dMin * (1 - LIMIT_ROUNDOFF))) {
             method = 1; ratio = r; kk = k; break;
           }
         }

@@ -69,7 +69,7 @@ beforeAll(async () => {
 });
 afterAll(() => closeDb());
 
-const GRAVITY = /met by gravity, pump stopped: the system needs -0\.\d+ m at 9\.00 m³\/h, not above 0: gravity alone drives this flow and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh \(assumed: /;
+const GRAVITY = /met, no pump head needed, pump stopped: the system needs -0\.\d+ m at 9\.00 m³\/h, not above 0: static head -0\.500 m \+ pipe losses 0\.\d+ m = -0\.\d+ m; gravity \(the discharge surface below the suction surface\) delivers this flow without a pump and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh \(assumed: /;
 const ESCALATION = /tariff escalation 100\.0 %\/year makes year 50's energy cost 5\.6e14 × year 1's \(above 15 %\/year; more than 10× year 1's\): implausible as a forecast \(rule, common practice from memory/;
 const figure = (name: string) => page.csv.find((r) => r[0] === "figures" && r[1] === name);
 
@@ -86,7 +86,7 @@ describe("a downhill step under system-curve control, and an implausible escalat
   });
   test("the CSV: the step's status in words, 0 kWh; the cycle complete; the warning as a figure", () => {
     const steps = page.csv.filter((r) => r[0] === "duty_cycle");
-    expect(steps.map((r) => [r[6], r[14], r[15]])).toEqual([["met", expect.stringMatching(/^\d/), "ok"], ["met by gravity, pump stopped", "0", "gravity-flow"]]);
+    expect(steps.map((r) => [r[6], r[14], r[15]])).toEqual([["met", expect.stringMatching(/^\d/), "ok"], ["met, no pump head needed, pump stopped", "0", "gravity-flow"]]);
     expect(figure("cycle_complete")?.[2]).toBe("true");
     expect(figure("cycle_steps_not_met")?.[2]).toBe("0");
     expect(figure("cycle_steps_not_computed")?.[2]).toBe("0");

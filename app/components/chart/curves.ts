@@ -2,6 +2,7 @@
  * Curve arithmetic on point lists (any units): cleaning, linear interpolation at a flow, the band
  * between two curves, a slice of a curve, and where two curves cross. Pure; no React, no DOM.
  */
+import { crossingFromRest } from "../../engine/operatingPoint.ts";
 import type { Pt } from "./types.ts";
 
 /**
@@ -94,9 +95,11 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
 }
 
 /**
- * Where a pump curve meets a system curve, both as points (linear between points): the crossing at
- * the highest flow where pump head − system head changes sign, over the flows both cover; null if
- * they do not meet there. Used where only sampled curves are at hand (stored field-check charts).
+ * Where a pump curve meets a system curve, both as points (linear between points), over the flows both cover: the point
+ * the pump reaches from rest, by the engine's rule (`crossingFromRest`, as `solveOperatingPoint` decides) — none when its
+ * head at the first flow both cover is below the system's (it cannot open its check valve, whatever crossings lie further
+ * out), else the first crossing where its head falls below the system's; null when there is none. Used where only sampled
+ * curves are at hand (stored field-check charts).
  */
 export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
   const p = cleanPoints(pump);
@@ -106,17 +109,20 @@ export function crossingOf(pump: readonly Pt[] | undefined | null, system: reado
   const hi = Math.min(p[p.length - 1].flow, s[s.length - 1].flow);
   if (!(hi > lo)) return null;
   const flows = Array.from(new Set([lo, hi, ...p.map((q) => q.flow), ...s.map((q) => q.flow)].filter((f) => f >= lo && f <= hi))).sort((a, b) => a - b);
-  let found: Pt | null = null;
-  let prev: { f: number; g: number } | null = null;
-  for (const f of flows) {
-    const g = (interpolateAt(p, f) as number) - (interpolateAt(s, f) as number);
-    if (g === 0) found = { flow: f, y: interpolateAt(p, f) as number };
-    else if (prev && prev.g * g < 0) {
-      const t = prev.g / (prev.g - g);
-      const flow = prev.f + t * (f - prev.f);
-      found = { flow, y: interpolateAt(p, flow) as number };
+  const gs = flows.map((f) => (interpolateAt(p, f) as number) - (interpolateAt(s, f) as number));
+  const crossings: Pt[] = [];
+  for (let i = 0; i < flows.length; i++) {
+    if (gs[i] === 0) crossings.push({ flow: flows[i], y: interpolateAt(p, flows[i]) as number });
+    else if (i > 0 && gs[i - 1] * gs[i] < 0) {
+      const flow = flows[i - 1] + (gs[i - 1] / (gs[i - 1] - gs[i])) * (flows[i] - flows[i - 1]);
+      crossings.push({ flow, y: interpolateAt(p, flow) as number });
     }
-    prev = { f, g };
   }
-  return found;
+  // The sign of pump − system head just past each crossing: the first sampled flow beyond it where they differ (0: none).
+  const afterSigns = crossings.map((c) => {
+    const j = flows.findIndex((f, k) => f > c.flow && gs[k] !== 0);
+    return j < 0 ? 0 : Math.sign(gs[j]);
+  });
+  const at = crossingFromRest(gs[0], afterSigns);
+  return typeof at === "number" ? crossings[at] : null;
 }

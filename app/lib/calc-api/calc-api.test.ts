@@ -209,6 +209,22 @@ describe("POST /api/v1/calc/operating-point", () => {
   });
 });
 
+describe("roughness refused from half the bore, as the system editor and engine refuse it (ROUGHNESS_MAX_OF_DIAMETER)", () => {
+  // The limit is ours (system.ts: roughness of half the inner diameter would close the bore); 0.2 m bore → 0.1 m.
+  test("pipe-loss: ε 0.1 m in a 0.2 m bore → 400 naming roughness_m with both numbers; 0.0999 m is answered", async () => {
+    const p = expectProblem(await post("pipe-loss", { ...WORKED, roughness_m: 0.1 }), 400, "roughness_m"); // old code: 200
+    const msg = p.errors!.find((e) => e.field === "roughness_m")!.message;
+    expect(msg).toContain("diameter_m 0.2 m, 0.1 m (got 0.1 m, ε/D = 0.5)");
+    expect((await post("pipe-loss", { ...WORKED, roughness_m: 0.0999 })).status).toBe(200);
+  });
+  test("system-curve and operating-point: a segment's ε at half its bore is refused by its field, before the engine", async () => {
+    const seg = { ...SEGMENT, roughness_m: 0.075 }; // 0.15 m bore
+    const a = expectProblem(await post("system-curve", { static_head_m: 1, segments: [SEGMENT, seg], flows_m3s: [0.01] }), 400, "segments[1].roughness_m");
+    expect(a.errors!.find((e) => e.field === "segments[1].roughness_m")!.message).toContain("diameter_m 0.15 m, 0.075 m (got 0.075 m");
+    expectProblem(await post("operating-point", { pump: PUMP, system: { static_head_m: 1, segments: [seg] } }), 400, "system.segments[0].roughness_m");
+  });
+});
+
 describe("methods", () => {
   test.each(Object.keys(ROUTES) as Endpoint[])("GET and PUT on %s → 405 problem+json with Allow: POST", async (ep) => {
     for (const method of ["GET", "PUT", "DELETE"]) {

@@ -4,6 +4,7 @@
 import {
   EngineInputError,
   G0,
+  ROUGHNESS_MAX_OF_DIAMETER,
   createPumpCurve,
   efficiencyAt,
   pipeHeadLoss,
@@ -120,14 +121,19 @@ function fluidFor(temperatureC: number | undefined, nu: number | undefined): { f
   };
 }
 
+/**
+ * Roughness at or above half the inner diameter refused, with both numbers (ROUGHNESS_MAX_OF_DIAMETER, as the engine's
+ * `prepareRun`, the system schema and the editor's field refuse it: roughness that high would close the bore, physically
+ * meaningless). The API took anything below the diameter before.
+ */
+function roughnessError(s: { diameter_m: number; roughness_m: number }, field: string): FieldError | null {
+  const limit = s.diameter_m * ROUGHNESS_MAX_OF_DIAMETER;
+  if (s.roughness_m < limit) return null;
+  return { field, message: `must be below half of diameter_m ${s.diameter_m} m, ${limit} m (got ${s.roughness_m} m, ε/D = ${+(s.roughness_m / s.diameter_m).toPrecision(3)}): roughness that high would close the bore` };
+}
+
 function roughnessErrors(segments: readonly { diameter_m: number; roughness_m: number }[], prefix: string): FieldError[] {
-  const errors: FieldError[] = [];
-  segments.forEach((s, i) => {
-    if (s.roughness_m >= s.diameter_m) {
-      errors.push({ field: `${prefix}[${i}].roughness_m`, message: `must be smaller than diameter_m (${s.diameter_m} m)` });
-    }
-  });
-  return errors;
+  return segments.map((s, i) => roughnessError(s, `${prefix}[${i}].roughness_m`)).filter((e): e is FieldError => e !== null);
 }
 
 // ───────────────────────────── the three calculations ─────────────────────────────
@@ -151,9 +157,8 @@ export function calcPipeLoss(body: unknown): CalcOutcome<PipeLossResponse> {
   const p = parse(PipeLossRequest, body);
   if (!p.ok) return p;
   const i = p.body;
-  if (i.roughness_m >= i.diameter_m) {
-    return { ok: false, errors: [{ field: "roughness_m", message: `must be smaller than diameter_m (${i.diameter_m} m)` }] };
-  }
+  const rough = roughnessError(i, "roughness_m");
+  if (rough) return { ok: false, errors: [rough] };
   const ctx = { bare: { reynolds: "flow_m3s", headLoss: "flow_m3s" } };
   return guarded(() => {
     const { fluid, out } = fluidFor(i.temperature_c, i.kinematic_viscosity_m2s);

@@ -2,7 +2,7 @@
 // engine's correlation registry, so a limit on the page cannot drift from the limit enforced.
 // Pure: runs wherever the page renders.
 import type * as v from "valibot";
-import { findCorrelation, type DarcyCorrelation } from "~/engine";
+import { ROUGHNESS_MAX_OF_DIAMETER, findCorrelation, type DarcyCorrelation } from "~/engine";
 import { DEFAULT_TEMPERATURE_C, OperatingPointRequest, PipeLossRequest, SystemCurveRequest } from "./schemas";
 
 /** Unit by field-name suffix: the API's one convention (every quantity carries its unit in its name). */
@@ -26,7 +26,7 @@ const MEANING: Record<string, string> = {
   flow_m3s: "flow",
   diameter_m: "inner diameter",
   length_m: "pipe length",
-  roughness_m: "absolute roughness ε; must also be below diameter_m",
+  roughness_m: `absolute roughness ε; must also be below ${ROUGHNESS_MAX_OF_DIAMETER} × diameter_m (half the bore: more would close it)`,
   minor_k: "sum of fitting loss coefficients ΣK (default 0)",
   temperature_c: `water temperature; fluid properties from IAPWS formulations (default ${DEFAULT_TEMPERATURE_C})`,
   kinematic_viscosity_m2s: "replaces water's viscosity, for other liquids",

@@ -79,6 +79,39 @@ describe("field chart: operating points on the system curve", () => {
     expect(crossingOf([], sys)).toBeNull();
   });
 
+  // Drooping curves (invented, m³/s and m), the rule common practice (from memory): a pump starts against a closed check
+  // valve, so it runs only when its head at the first flow exceeds the system's; then it settles at the first crossing
+  // where its head falls below the system's. The chart marks the point the engine reports, or none.
+  const droop = [[0, 40], [0.005, 42], [0.01, 42.5], [0.015, 41], [0.02, 37], [0.025, 30]].map(([flow, y]) => ({ flow, y }));
+  const sysOf = (stat: number) => [0, 0.005, 0.01, 0.015, 0.02, 0.025].map((q) => ({ flow: q, y: stat + 10_000 * q * q }));
+  const engineAt = (pump: { flow: number; y: number }[], sys: { flow: number; y: number }[]) =>
+    solveOperatingPoint(createPumpCurve({ points: pump.map((p) => ({ flow: p.flow, head: p.y })), riseTolerance: 1 }), (q) => interpolateAt(sys, q) as number);
+
+  test("a drooping curve whose static head (41 m) is above its shut-off head (40 m): no operating point, as the engine says", () => {
+    const sys = sysOf(41); // crossings near 0.003 m³/s (unstable) and 0.011 m³/s (stable), both out of reach from rest
+    expect(crossingOf(droop, sys)).toBeNull(); // old code: the highest-flow crossing, 0.0109 m³/s
+    expect(engineAt(droop, sys).status).toBe("no-intersection-shutoff-below-static");
+  });
+
+  test("the flip: static 39.5 m, below the 40 m shut-off: the one stable crossing, near where the engine finds it", () => {
+    const x = crossingOf(droop, sysOf(39.5))!;
+    // Linear between 0.01 (pump 2 m above) and 0.015 m³/s (0.75 m below): 0.01 + 0.005 · 2/2.75 (geometry).
+    expect(x.flow).toBeCloseTo(0.01 + 0.005 * (2 / 2.75), 12);
+    const op = engineAt(droop, sysOf(39.5));
+    expect(op.status).toBe("ok");
+    expect(Math.abs(x.flow / op.flow! - 1)).toBeLessThan(0.05); // the engine's curve is cubic between the points, the chart's linear
+  });
+
+  test("down, up and down again (flat 39 m system): the first stable crossing, not the highest-flow one", () => {
+    const pump = [[0, 40], [0.005, 38], [0.01, 39.5], [0.015, 41], [0.02, 37], [0.025, 30]].map(([flow, y]) => ({ flow, y }));
+    const sys = [{ flow: 0, y: 39 }, { flow: 0.025, y: 39 }];
+    const x = crossingOf(pump, sys)!;
+    expect(x.flow).toBeCloseTo(0.0025, 12); // linear: 40 → 38 over 0.005 m³/s passes 39 m half way (geometry); old code: 0.0175
+    const op = engineAt(pump, sys);
+    expect(op.status).toBe("multiple");
+    expect(op.flow!).toBeLessThan(0.005); // the engine's reported point is the first one too (cubic between the points)
+  });
+
   test("the stored chart's curve at the measured speed meets the system curve where the engine's operating point is (sampling, 0.5 %)", () => {
     // The fixture pump on the default system, checked at 2755 rpm (0.95 × 2900): the chart must show an
     // operating point for both curves, not "no operating point on the system curve".

@@ -61,10 +61,11 @@ export type AdjustedRatio = { ratio: number; note: string | null; warnings: stri
  * shared; series: the head shared) against the system's head at the duty flow at the demanding edge.
  * @param base the pump's water curve as published
  * @param adj the adjustment (method, ratio or null to solve, arrangement, duty pumps)
- * @param duty the duty flow (m³/s) with the system's head there (m), its place in words and the typed duty head (m); null without a duty
+ * @param duty the duty flow (m³/s) with the system's head there (m), its place in words, the typed duty head (m) and, where
+ *   that head is ≤ 0, why in words with the parts (`noHeadClause`); null without a duty
  * @param liquid the solver on a viscous liquid, null on water
  */
-export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: number; systemHead: number; edge: string; typedHead: number } | null, liquid: LiquidSolver | null): AdjustedRatio {
+export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: number; systemHead: number; edge: string; typedHead: number; noHead?: string | null } | null, liquid: LiquidSolver | null): AdjustedRatio {
   if (adj.method === "none") return { ratio: 1, note: null, warnings: [] };
   if (adj.ratio != null) return { ratio: adj.ratio, note: null, warnings: [] };
   if (!duty) return { ratio: 1, note: null, warnings: [] };
@@ -76,7 +77,8 @@ export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: nu
   const pub = { speed: base.speed ?? null, impellerDiameter: base.impellerDiameter ?? null };
   // Downhill: no pump head is needed at the duty flow, so there is no speed or trim to solve for (the engine
   // refuses a duty head ≤ 0); the pump is judged as published, with the reason.
-  if (hSys <= 0) return { ratio: 1, warnings: [], note: `not solved: ${where} is not above zero, so gravity alone delivers the duty flow and there is no head to ${adj.method === "trim" ? "trim" : "slow"} the pump to; judged at full ${full}` };
+  // Its cause in words with the system's parts (duty-check.ts `noHeadClause`): gravity, the pressure difference or both.
+  if (hSys <= 0) return { ratio: 1, warnings: [], note: `not solved: ${where} is not above zero (${duty.noHead ?? "the system needs no pump head there"}), so there is no head to ${adj.method === "trim" ? "trim" : "slow"} the pump to; judged at full ${full}` };
   const sol = adj.method === "speed" ? speedForDuty(base, perPump, { min: 0.3, max: 1 }) : trimForDuty(base, perPump);
   const warnings = sol.warnings.map((w) => w.message);
   // The solved ratio rounded up to a whole rpm or mm (setting-step.ts): the setting shown is the setting judged.

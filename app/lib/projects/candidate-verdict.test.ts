@@ -168,7 +168,7 @@ describe("downhill: the system needs no pump head at the duty flow (invented cur
     for (const method of ["speed", "trim"] as const) {
       const r = evaluateCandidate(input(-3 - friction), set, { ...DEFAULT_ADJUSTMENT, method });
       expect(r.ratio).toBe(1);
-      expect(inSI(r.ratioNote!)).toMatch(/^not solved: the system's head at the duty flow 36\.0 m³\/h, -3\.00 m at most lift, aged pipe .* is not above zero, so gravity alone delivers the duty flow/);
+      expect(inSI(r.ratioNote!)).toMatch(/^not solved: the system's head at the duty flow 36\.0 m³\/h, -3\.00 m at most lift, aged pipe .* is not above zero \(static head -\d+\.\d+ m \+ pipe losses \d+\.\d+ m = -3\.00 m; gravity \(the discharge surface below the suction surface\) delivers the duty flow without a pump\), so there is no head to/);
       expect(r.verdict).not.toBeNull();
     }
   });

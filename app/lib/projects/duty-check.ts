@@ -1,6 +1,6 @@
 // The typed duty head against the system's own head at the duty flow (the duty check shown beside the duty), and
 // where the system needs no pump head there, why: its parts with their numbers. Pure.
-import { systemHead, systemHeadFunction, type prepareSystem } from "~/engine";
+import { systemHead, systemHeadFunction, type prepareSystem, type SystemCase } from "~/engine";
 import { fmtPctSignedExact, qt } from "~/engine/quantityText";
 import { GOVERNING_CASE, governingName } from "./candidate-judgement";
 import type { SystemInput } from "./system-input";
@@ -31,8 +31,8 @@ type Prepared = ReturnType<typeof prepareSystem>;
  * below the suction surface), the pressure difference where it is below zero (the discharge surface's pressure below
  * the suction surface's), or both.
  */
-export function noHeadNeeded(input: SystemInput, prepared: Prepared, flow: number): { sum: string; cause: string } {
-  const h = systemHead(prepared, flow, GOVERNING_CASE);
+export function noHeadNeeded(input: Pick<SystemInput, "mode" | "pressureDifference">, prepared: Prepared, flow: number, which: SystemCase = GOVERNING_CASE): { sum: string; cause: string } {
+  const h = systemHead(prepared, flow, which);
   const losses = h.suctionLoss + h.dischargeLoss;
   if (input.mode === "closed-loop") {
     return { sum: `control head ${qt("head", h.fixedHead)} + pipe losses ${qt("head", losses)} = ${qt("head", h.head)}`, cause: "With no control head to hold and no pipe loss at this flow, the loop takes" };
@@ -53,6 +53,17 @@ export function noHeadNeeded(input: SystemInput, prepared: Prepared, flow: numbe
     ? "Gravity (the discharge surface below the suction surface) delivers"
     : "The system's heads deliver";
   return { sum, cause };
+}
+
+/**
+ * `noHeadNeeded` as one clause to go on after a colon: "static head -3.00 m + pipe losses 0.75 m = -2.25 m; gravity (the
+ * discharge surface below the suction surface) delivers <what>" — for the texts that say no pump head is needed (the
+ * speed/trim note, the duty cycle's step).
+ * @param what what is delivered, in words ("the duty flow", "this flow")
+ */
+export function noHeadClause(input: Pick<SystemInput, "mode" | "pressureDifference">, prepared: Prepared, flow: number, what: string, which: SystemCase = GOVERNING_CASE): string {
+  const { sum, cause } = noHeadNeeded(input, prepared, flow, which);
+  return `${sum}; ${cause.charAt(0).toLowerCase()}${cause.slice(1)} ${what} without a pump`;
 }
 
 export function dutyCheckOf(input: SystemInput, prepared: Prepared): DutyCheck | null {

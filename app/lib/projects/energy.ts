@@ -25,6 +25,8 @@ import {
   type LifeCycleResult,
 } from "~/engine";
 import { decimalMessage, readDecimal } from "../shared/decimal";
+import { noHeadClause } from "./duty-check";
+import type { SystemInput } from "./system-input";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
 const num = (label: string) => v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`));
@@ -87,6 +89,9 @@ export type EnergySettings = v.InferOutput<typeof EnergySettingsSchema>;
 export const DEFAULT_ENERGY_SETTINGS: EnergySettings = { control: "fixed-speed", profile: null, years: 15, escalation: 0.03, discountRate: 0.05 };
 
 type InputLike = {
+  /** The system's mode and pressure difference (Pa): what a step needing no pump head names as its cause (duty-check.ts). */
+  mode: SystemInput["mode"];
+  pressureDifference: number;
   hoursPerYear: number;
   tariffPerKWh: number;
   duty: { flow: number; head: number } | null;
@@ -189,8 +194,11 @@ export function candidateEnergy(
       if (mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1) curve = scaleBySpeed(curve, 1 / r.ratio).curve;
       const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
-      const sysHead = systemHeadFunction(prepareSystem(systemSpec));
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive });
+      const prepared = prepareSystem(systemSpec);
+      const sysHead = systemHeadFunction(prepared);
+      // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
+      const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive, noHeadReason });
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [
@@ -215,13 +223,14 @@ export function candidateEnergy(
 type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?: string | null; code?: string | null; message: string }[] };
 
 /**
- * How a step that is not "ok" reads at the step: met by gravity with the pump stopped (no pump head needed, 0 kWh, counted),
+ * How a step that is not "ok" reads at the step: met with the pump stopped (no pump head needed, 0 kWh, counted; the step's
+ * message names the cause — gravity, the pressure difference or both),
  * met at the lowest speed that keeps the flow on the curve with the surplus head throttled (counted), not computed (no
  * data) or not met (the pump or the control cannot reach it).
  */
 export function stepVerdict(s: { status: string }): string {
   if (s.status === "ok") return "";
-  if (s.status === "gravity-flow") return "met by gravity, pump stopped";
+  if (s.status === "gravity-flow") return "met, no pump head needed, pump stopped";
   if (s.status === "throttled-at-min-on-curve-speed") return "met, throttled at the lowest on-curve speed";
   return s.status === "no-power-data" ? "not computed" : "not met";
 }

@@ -32,7 +32,7 @@ import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn }
 export * from "./system-input";
 export * from "./candidate-input";
 export * from "./duty-check";
-import { dutyCheckOf, type DutyCheck } from "./duty-check";
+import { dutyCheckOf, noHeadClause, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
 import { arrangementStartWarnings } from "./arrangement-start";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
@@ -211,7 +211,9 @@ export function evaluateCandidate(
   const liquid: Liquid = { kind: input.fluid.kind, name: input.fluid.kind === "custom" ? input.fluid.name : "water", kinematicViscosity: prepared.fluid.kinematicViscosity, density: prepared.fluid.density };
   const solver = liquidSolver(base, liquid, set.speed);
   const n = adj.arrangement === "single" ? 1 : adj.dutyPumps;
-  const adjusted = adjustedRatio(base, adj, input.duty ? { flow: input.duty.flow, systemHead: governingHead(input.duty.flow), edge: governingName(input.mode), typedHead: input.duty.head } : null, solver);
+  const dutyHead = input.duty ? governingHead(input.duty.flow) : null;
+  const adjusted = adjustedRatio(base, adj, input.duty ? { flow: input.duty.flow, systemHead: dutyHead!, edge: governingName(input.mode), typedHead: input.duty.head,
+    noHead: dutyHead! <= 0 ? noHeadClause(input, prepared, input.duty.flow, "the duty flow") : null } : null, solver);
   const { ratio } = adjusted;
   const ratioNote = adjusted.note;
   warnings.push(...adjusted.warnings);

@@ -11,6 +11,7 @@ import { selectionCsv } from "./selection-export.server";
 import type { FrozenSelection } from "./selections.server";
 import { npshLowestText, npshPointsText } from "~/components/candidate-figures";
 import { SI_UNITS } from "~/lib/shared/units";
+import Papa from "papaparse";
 
 // A flat NPSHr of 2.5 m on a falling curve (invented), 5–6 m static lift.
 const curvePoints = (npshr: number | null) => [0, 0.005, 0.01, 0.015, 0.02, 0.025].map((q) => ({ flow: q, head: 14 - 10000 * q * q, efficiency: q === 0 ? 0 : 0.8 * (1 - ((q - 0.015) / 0.015) ** 2), power: null, npshr }));
@@ -123,5 +124,33 @@ describe("the selection export carries the corners and the status", () => {
     for (const c of ["design point", ...npshCorners("open").map((x) => x.name)]) expect(csv).toMatch(new RegExp(`^npsh,"?${c}"?,`, "m"));
     expect(csv).toMatch(/^figures,npsh_status_over_band,cavitation-risk,/m);
     expect(csv).toMatch(/^figures,npsh_lowest_at,"?least lift, aged pipe"?,/m);
+  });
+
+  it("NPSHa ≤ 0 (a 11 m suction lift, NPSHr 2.5 m): the band, npsh and figure ratios are blank with NPSHa beside them, never a negative ratio", () => {
+    const result = evaluate({ ...defaultSystemInput(), suctionStaticHead: -11 });
+    const frozen = { result, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null } as unknown as FrozenSelection;
+    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozen).trim()).data;
+    const section = (name: string) => {
+      const header = rows.find((r) => r[0] === "section" && rows[rows.indexOf(r) + 1]?.[0] === name)!;
+      return rows.filter((r) => r[0] === name).map((r) => Object.fromEntries(header.map((h, i) => [h, r[i]])));
+    };
+    const npsh = section("npsh"), band = section("band");
+    expect(npsh.length).toBe(5); // the design point and the four corners
+    expect(band.length).toBe(2); // the band's two edges
+    for (const r of [...npsh, ...band]) {
+      expect(Number(r.npsha_m), JSON.stringify(r)).toBeLessThanOrEqual(0); // −11 m of lift: below the ~10.1 m barometric head at 20 °C (common practice)
+      expect(r.npsh_margin_ratio, JSON.stringify(r)).toBe(""); // old code: a negative ratio, e.g. -0.4
+    }
+    const fig = rows.filter((r) => r[0] === "figures");
+    expect(Number(fig.find((r) => r[1] === "npsh_available")![2])).toBeLessThanOrEqual(0);
+    expect(fig.find((r) => r[1] === "npsh_margin_ratio")![2]).toBe("");
+    expect(fig.find((r) => r[1] === "npsh_status_over_band")![2]).toBe("cavitation-risk");
+  });
+
+  it("the flip: flooded 0.4 m, NPSHa above zero everywhere: the ratios are written", () => {
+    const result = evaluate(system(3e-3));
+    const frozen = { result, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null } as unknown as FrozenSelection;
+    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozen).trim()).data.filter((r) => r[0] === "npsh");
+    for (const r of rows) { expect(Number(r[3])).toBeGreaterThan(0); expect(Number(r[5])).toBeCloseTo(Number(r[3]) / Number(r[4]), 9); } // the ratio's definition
   });
 });

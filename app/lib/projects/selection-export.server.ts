@@ -8,6 +8,11 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { inSI } from "~/engine/quantityText";
 
 const row = (xs: unknown[]) => xs;
+/**
+ * A margin ratio NPSHa / NPSHr as the CSV writes it: blank where NPSHa ≤ 0 (m), where a ratio means nothing and NPSHa
+ * decides (a cavitation risk whatever the pump), as every text surface reads it (candidate-judgement.ts `npshOverBand`).
+ */
+const ratioCell = (ratio: number | null | undefined, available: number | null | undefined) => (available != null && available <= 0 ? null : ratio);
 
 /**
  * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, NPSH at the design
@@ -26,7 +31,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
   const basis = pumpsBasis(f.adjustment);
   if (basis) lines.push(row([`# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
-  lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe"]));
+  lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe; npsh_margin_ratio blank where NPSHa <= 0 (no ratio to NPSHr means anything there: NPSHa is beside it)"]));
   lines.push([]);
   const w = (name: string) => powerColumn(basis, name);
   lines.push(row(["section", "flow_m3s", "head_m", "head_low_m", "head_high_m", "pressure_pa", "npsha_m"]));
@@ -36,14 +41,14 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   lines.push(row(["section", "flow_m3s", "head_m", "efficiency", w("shaft_power_w"), "npshr_m"]));
   for (const p of f.result.curve) lines.push(row(["pump_curve", p.flow, p.head, p.efficiency, p.power, p.npshr]));
   lines.push([]);
-  lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", w("shaft_power_w"), "npsh_margin_ratio", "no_operating_point_reason"]));
-  for (const b of f.result.band ?? []) lines.push(row(["band", b.edge, b.flow, b.head, b.efficiency, b.shaftPower, b.npshMarginRatio, b.reason]));
+  lines.push(row(["section", "edge", "flow_m3s", "head_m", "efficiency", w("shaft_power_w"), "npsh_margin_ratio", "no_operating_point_reason", "npsha_m"]));
+  for (const b of f.result.band ?? []) lines.push(row(["band", b.edge, b.flow, b.head, b.efficiency, b.shaftPower, ratioCell(b.npshMarginRatio, b.npshAvailable), b.reason, b.npshAvailable]));
   const npshPoints = f.result.npsh?.judgedAt;
   if (npshPoints?.length) {
     // Every point NPSH was judged at: the design point and each corner of the band (selections frozen before the corners have none).
     lines.push([]);
     lines.push(row(["section", "at", "flow_m3s", "npsha_m", "npshr_m", "npsh_margin_ratio"]));
-    for (const p of npshPoints) lines.push(row(["npsh", p.at, p.flow, p.available, p.required, p.marginRatio]));
+    for (const p of npshPoints) lines.push(row(["npsh", p.at, p.flow, p.available, p.required, ratioCell(p.marginRatio, p.available)]));
   }
   energySections(f, lines, basis);
   lines.push([]);
@@ -70,7 +75,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("bep_ratio", fig?.bepRatio, "1");
   add("npsh_available", fig?.npshAvailable, "m");
   add("npsh_required", fig?.npshRequired, "m");
-  add("npsh_margin_ratio", fig?.npshMarginRatio, "1");
+  add("npsh_margin_ratio", ratioCell(fig?.npshMarginRatio, fig?.npshAvailable), "1");
   // Over the design point and the band's corners (selections saved before this was judged have none; before the corners, the edges only).
   add("npsh_status_over_band", f.result.npsh?.status ?? null, "");
   add("npsh_lowest_margin_ratio", f.result.npsh?.marginRatio ?? null, "1");
