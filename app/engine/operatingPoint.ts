@@ -83,8 +83,8 @@ export function solveOperatingPoint(
  * settles at the first crossing where its head falls below the system's (a crossing where it rises above it again is
  * unstable: the flow runs on). The one rule `solveOperatingPoint` and the charts' sampled curves (`crossingOf`) apply.
  * @param atFirst pump head − system head at the first flow, m (or any one head unit)
- * @param afterSigns for each crossing in ascending flow (a flow where the heads are equal at the first one included), the
- *   sign of pump head − system head just past it: −1, +1, or 0 where nothing lies past it (dimensionless)
+ * @param afterSigns signs (dimensionless), for each crossing in ascending flow (a flow where the heads are equal at the first
+ *   one included), of pump head − system head just past it: −1, +1, or 0 where nothing lies past it
  * @returns the index of the crossing reached; "cannot-start" when the pump's head at the first flow is below the system's;
  *   "beyond-curve-end" when no crossing is one where the pump's head falls below the system's
  */
