@@ -166,8 +166,16 @@ function panelsOf(s: TracerState) {
 }
 
 /**
+ * A head curve that crosses one contour only, once or twice (no other level): its efficiency is known at those
+ * crossings only, which make no efficiency row (once: one value; twice: the two ends of the span inside the
+ * contour, unread between them, nothing past them). `tracedSets` writes no efficiency for it, `unreadPeaks` says so.
+ */
+export const oneContourOnly = (xs: readonly Crossing[]) => (xs.length === 1 || xs.length === 2) && xs.every((x) => x.level === xs[0].level);
+
+/**
  * The innermost contour spans of the head curves whose efficiency comes from contours (one per span),
- * and (`lone`) a head curve that crosses one contour once: its efficiency is known at that flow only.
+ * and a head curve that crosses one contour only (oneContourOnly): once (`lone`), its efficiency is known at that
+ * flow only; twice (`twice`), at those two flows only, no row between or past them.
  */
 export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | string>): UnreadPeak[] {
   const out: UnreadPeak[] = [];
@@ -183,6 +191,12 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     if (r.crossings.length === 1) {
       const [x] = r.crossings;
       out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, next: next(x.level), midpoint: x.x, taken: false });
+    }
+    if (r.crossings.length === 2 && oneContourOnly(r.crossings)) {
+      const [a, b] = r.crossings;
+      const midpoint = r.gaps.find((g) => g.innermost && !g.toEnd && !g.fromStart)?.midpoint ?? (a.x + b.x) / 2;
+      out.push({ ...who, level: a.level, from: a.x, to: b.x, twice: true, next: next(a.level), midpoint, taken: false });
+      continue;
     }
     if (r.crossings.length < 2) continue;
     for (const g of r.gaps.filter((x) => x.innermost)) {
@@ -208,7 +222,8 @@ export function tracedSets(s: TracerState, cals: Map<number, Calibration | strin
     }
     if (!set.curves.efficiency) {
       const r = contourReading(s, h, cals);
-      if (r.efficiency.length >= 2) {
+      // One contour crossed once or twice: no efficiency row (a vertex exactly on a crossing gave one at the level, or the box's middle one).
+      if (r.efficiency.length >= 2 && !oneContourOnly(r.crossings)) {
         set.curves.efficiency = r.efficiency;
         set.units!.efficiency = "%";
         set.efficiencyGaps = r.gaps.map((g) => ({ from: g.from, to: g.to }));

@@ -1,9 +1,10 @@
 // What the tracer's peak texts (lib/tracer/peak.ts) say of the best-efficiency point is what the engine does with the
 // tracer's own CSV: one invented chart (a head curve clicked along H = 50 − 0.003·Q², closed rectangular 70 % and 74 %
 // contours), a span between two crossings, a curve that ends inside the 74 % contour and one that starts inside it, each
-// with the box ticked and unticked. The claims are read from the words; the facts from createPumpCurve on analyseCsv.
+// with the box ticked and unticked; then the 74 % contour alone, crossed twice or once. The claims are read from the
+// words; the facts from createPumpCurve on analyseCsv.
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, shaftPowerAt } from "~/engine";
+import { createPumpCurve, efficiencyAt, shaftPowerAt } from "~/engine";
 import { analyseCsv } from "~/lib/import";
 import { peakBoxLabel, peakWarning } from "~/lib/tracer/peak";
 import { paper } from "~/lib/tracer/test-chart";
@@ -21,10 +22,10 @@ const head = (q0: number, q1: number, taken: boolean): Curve => ({
 const box = (id: number, level: number, a: number, b: number): Curve => ({
   id, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level, closed: true, points: [px(a, 5), px(b, 5), px(b, 60), px(a, 60)],
 });
-const state = (q0: number, q1: number, taken: boolean): TracerState => ({
+const state = (q0: number, q1: number, taken: boolean, alone = false): TracerState => ({
   ...initialState(), model: "Invented 50-200", xRefs: [ref(10, 0, 10), ref(90, 0, 90)],
   panels: [{ id: 1, quantity: "head", unit: "m", scale: "linear", refs: [ref(0, 10, 10), ref(0, 50, 50)] }],
-  curves: [head(q0, q1, taken), box(2, 70, 20, 80), box(3, 74, 30, 60)],
+  curves: [head(q0, q1, taken), ...(alone ? [] : [box(2, 70, 20, 80)]), box(3, 74, 30, 60)],
 });
 /** The one span's warning and label, and the engine's curve from the page's CSV (flows back in m³/h). */
 function read(s: TracerState) {
@@ -34,7 +35,7 @@ function read(s: TracerState) {
   const [set] = analyseCsv(csvOf(s, cals)).result.curveSets;
   const curve = createPumpCurve({ points: set.points });
   const effRows = set.points.filter((p) => p.efficiency !== undefined).map((p) => p.flow * 3600);
-  return { p: ps[0], text: peakWarning(ps[0], "m3/h"), label: peakBoxLabel(ps[0], "m3/h"), curve, effRows };
+  return { p: ps[0], text: peakWarning(ps[0], "m3/h"), label: peakBoxLabel(ps[0], "m3/h"), curve, effRows, points: set.points };
 }
 const num = (m: RegExpMatchArray | null) => (m ? Number(m[1]) : NaN);
 const power = (curve: ReturnType<typeof createPumpCurve>, q: number) => shaftPowerAt(curve, q / 3600, 1000);
@@ -85,7 +86,7 @@ describe("the peak warning's word on the best-efficiency point is the engine's",
 describe("the box's label says what ticking it does to the best-efficiency point", () => {
   for (const c of cases) {
     it(c.name, () => {
-      const { label } = read(state(c.q0, c.q1, false));
+      const label = read(state(c.q0, c.q1, false)).label ?? ""; // every span here has a box: "" fails the next check
       const ticked = read(state(c.q0, c.q1, true));
       const takesBep = /as Curve 1’s best-efficiency point$/.test(label);
       expect(takesBep || /no best-efficiency point either way$/.test(label)).toBe(true);
@@ -96,6 +97,71 @@ describe("the box's label says what ticking it does to the best-efficiency point
       if (Number.isFinite(upTo)) expect(Math.abs(ticked.effRows.at(-1)! - upTo)).toBeLessThanOrEqual(0.05);
       if (Number.isFinite(from)) expect(Math.abs(ticked.effRows[0] - from)).toBeLessThanOrEqual(0.05);
       expect([upTo, from].filter(Number.isFinite)).toHaveLength(c.edge.includes(true) ? 1 : 0);
+    });
+  }
+});
+
+// The 74 % contour alone (construction): crossed at 30 and 60 m³/h by the curve clicked 0–95, at 30 only by the one
+// clicked 0–45 (it ends inside), at 60 only by the one clicked 40–95 (it starts inside).
+const alone = [
+  { name: "crossed twice", q0: 0, q1: 95, at: [30, 60] },
+  { name: "crossed once, the curve ending inside it", q0: 0, q1: 45, at: [30] },
+  { name: "crossed once, the curve starting inside it", q0: 40, q1: 95, at: [60] },
+];
+
+describe("a curve that crosses one contour only: the warning's word on its efficiency is the engine's", () => {
+  for (const c of alone) {
+    for (const taken of [false, true]) {
+      it(`${c.name}, box ${taken ? "ticked" : "unticked"}`, () => {
+        const { text, curve, effRows } = read(state(c.q0, c.q1, taken, true));
+        // The claims: no efficiency written at all; a BEP outside the contour; a BEP at the middle.
+        const noneWritten = /the CSV writes no efficiency for this curve/.test(text);
+        const outside = /puts the best-efficiency point (outside|before|after) the contour/.test(text);
+        const atMiddle = /is written at [\d.]+ % and taken as the best-efficiency point/.test(text);
+        expect(effRows.length === 0).toBe(noneWritten);
+        expect(curve.bep !== null).toBe(outside || atMiddle);
+        if (noneWritten) {
+          expect([curve.efficiency, curve.bep, power(curve, 45)]).toEqual([null, null, null]);
+          expect(curve.warnings.map((w) => w.code)).toContain("no-efficiency");
+        }
+        // The crossings the words name are the construction's (the text's 0.1 m³/h).
+        const m = text.match(/the 74 % contour, (?:once, at ([\d.]+)|twice, at ([\d.]+) and ([\d.]+)) m³\/h/);
+        const named = (m ? m.slice(1) : []).filter((x) => x !== undefined).map(Number);
+        expect(named).toHaveLength(c.at.length);
+        named.forEach((q, i) => expect(Math.abs(q - c.at[i])).toBeLessThanOrEqual(0.05));
+      });
+    }
+  }
+
+  it("crossed twice: the middle at the level would be the one efficiency row (no curve, no BEP); with the crossings too, a flat line (no BEP)", () => {
+    const { text, label, points } = read(state(0, 95, false, true));
+    expect(text).toMatch(/would be the curve's only efficiency row/);
+    expect(text).toMatch(/written at 74 % too, the line would be flat: still no best-efficiency point/);
+    expect(label).toBeNull();
+    // The CSV's rows with 74 % put at the middle (45) alone, then at the two crossings (30, 60) too, through the engine.
+    const at = (qs: number[]) => createPumpCurve({ points: [...points.filter((p) => !qs.includes(Math.round(p.flow * 3600))),
+      ...qs.map((q) => ({ ...points.find((p) => p.flow * 3600 > q - 4)!, flow: q / 3600, head: headOf(q), efficiency: 0.74 }))].sort((a, b) => a.flow - b.flow) });
+    const one = at([45]);
+    expect([one.efficiency, one.bep]).toEqual([null, null]);
+    const flat = at([30, 45, 60]);
+    expect(flat.efficiency).not.toBeNull();
+    expect(flat.bep).toBeNull();
+    expect(flat.warnings.map((w) => w.code)).toContain("bep-not-published");
+  });
+});
+
+describe("the box is offered only where ticking it changes what the engine reads from the page's CSV", () => {
+  const all = [...cases.map((c) => ({ ...c, alone: false })), ...alone.map((c) => ({ ...c, alone: true }))];
+  /** The engine's BEP, and its efficiency and shaft power at every m³/h of the clicked span. */
+  const reading = (s: TracerState) => {
+    const { curve } = read(s);
+    return [curve.bep, ...Array.from({ length: 96 }, (_, q) => [efficiencyAt(curve, q / 3600), power(curve, q)])];
+  };
+  for (const c of all) {
+    it(`${c.alone ? "the 74 % contour alone, " : ""}${c.name}`, () => {
+      const un = state(c.q0, c.q1, false, c.alone), ti = state(c.q0, c.q1, true, c.alone);
+      const changes = JSON.stringify(reading(un)) !== JSON.stringify(reading(ti));
+      expect(read(un).label !== null).toBe(changes);
     });
   }
 });

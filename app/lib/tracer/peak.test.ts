@@ -125,6 +125,19 @@ describe("words about the peak", () => {
     );
   });
 
+  it("on the page, for a curve that crosses one contour twice and no other: the two flows, why no row has an efficiency, and no box", () => {
+    // Invented: the 74 % contour crossed at 30 and 60 m³/h, no other contour crossed; a 78 % one drawn elsewhere.
+    const twice: UnreadPeak = { ...p, from: 30, to: 60, midpoint: 45, next: 78, twice: true };
+    expect(peakWarning(twice, "m3/h")).toBe(
+      "Curve 2 (160 mm, 2900 rpm): the efficiency is not read. The curve crosses one contour only, the 74 % contour, twice, at 30.0 and 60.0 m³/h: the efficiency is known at those two flows only (74 %); between them the contours say only that it is above 74 % and below 78 %, and outside them nothing, no other contour crossing the curve. So no row of the curve has an efficiency: the rows between the crossings are left blank (inside the contour) and those outside have none to read (it is not carried past the crossings), and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. No box is offered to take the middle of the span, 45.0 m³/h, as the best-efficiency point: at 74 % it would be the curve's only efficiency row, and the engine reads efficiency, and shaft power from it, only between two rows or more, and a best-efficiency point only at a peak with efficiency rows on both sides; with the crossings written at 74 % too, the line would be flat: still no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.",
+    ); // source: construction (the invented flows and levels above)
+    expect(peakNote([p, twice], "m3/h")).toBe(
+      "peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % at 30.0–50.0 m³/h; efficiency at two crossings of one contour only, none written: 160 mm, 2900 rpm 74 % at 30.0 and 60.0 m³/h",
+    ); // source: construction
+    // No box for one contour crossed once or twice (the CSV writes no efficiency either way); a span's box as before.
+    expect([peakBoxLabel(twice, "m3/h"), peakBoxLabel({ ...p, lone: true }, "m3/h"), peakBoxLabel(p, "m3/h")]).toEqual([null, null, "Take the middle of the 74 % contour as Curve 2’s best-efficiency point"]); // source: construction
+  });
+
   it("names a curve imported without a speed as such (it read 'NaN rpm'), on the page and in the source line", () => {
     // A blank speed the importer takes (curve-checks.ts lets it through beside another Ø) is NaN on the page.
     const blank = { ...p, speedRpm: NaN };

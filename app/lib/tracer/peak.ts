@@ -9,7 +9,9 @@
  * contour. A curve that crosses that level once ends inside the contour: its span runs from the
  * crossing to the curve's end, and the peak may lie past the end (`toEnd`); one that starts inside it,
  * the mirror (`fromStart`). A curve that crosses one contour once (`lone`) has its efficiency at that
- * one flow only, which makes no efficiency curve: the CSV writes none for it. Only when the user
+ * one flow only, which makes no efficiency curve: the CSV writes none for it; one that crosses one contour
+ * twice and no other (`twice`) has it at those two flows only, the ends of its unread span, so no row has
+ * one and the CSV writes none either (no box: the middle alone would be one row, no curve). Only when the user
  * confirms it is the middle of that span (in axis space: the middle on the paper) written as a row at
  * the contour's level: between two crossings it is then taken as the BEP; at the curve's end or start
  * it is the last (or first) efficiency row, and the engine, which knows a BEP only at an interior peak
@@ -39,6 +41,8 @@ export type UnreadPeak = {
   fromStart?: boolean;
   /** The curve crosses one contour only, once, at `from` (= `to`): no span, no box; its efficiency is known at that flow only. */
   lone?: boolean;
+  /** The curve crosses one contour only, twice, at `from` and `to`: its efficiency is known at those two flows only, the ends of the span inside it; no box. */
+  twice?: boolean;
   /** The lowest level above `level` drawn on the panel (the peak is below it), or null. */
   next: number | null;
   /** The middle of the span (on the paper). */
@@ -59,6 +63,7 @@ const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` :
 /** The tracer page's warning for one curve. */
 export function peakWarning(p: UnreadPeak, flowUnit: string): string {
   if (p.lone) return loneWarning(p, flowUnit);
+  if (p.twice) return twiceWarning(p, flowUnit);
   if (p.toEnd) return edgeWarning(p, flowUnit, "end");
   if (p.fromStart) return edgeWarning(p, flowUnit, "start");
   const u = flowUnitText(flowUnit);
@@ -105,9 +110,11 @@ function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): st
 /**
  * The box's label beside a span's warning: for a span between two crossings it takes the middle as the best-efficiency
  * point; for one at the curve's end or start it writes the middle at the level, which carries the efficiency and shaft
- * power to there but gives no best-efficiency point (edgeWarning).
+ * power to there but gives no best-efficiency point (edgeWarning). Null, no box, for a curve that crosses one contour
+ * only, once or twice: the CSV writes no efficiency for it, ticked or not (loneWarning, twiceWarning).
  */
-export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string {
+export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
+  if (p.lone || p.twice) return null;
   const level = `${typed(p.level)} %`;
   if (!p.toEnd && !p.fromStart) return `Take the middle of the ${level} contour as ${p.curve}’s best-efficiency point`;
   const mid = `${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}`;
@@ -130,6 +137,28 @@ function loneWarning(p: UnreadPeak, flowUnit: string): string {
   );
 }
 
+/**
+ * The warning for a curve that crosses one contour twice and no other: its efficiency is known at the two crossings
+ * only, the ends of the span inside the contour. Rows inside the span are blank (unread), rows outside have nothing
+ * to read from (the efficiency is not carried past the crossings), so the CSV writes none (model.ts `tracedSets`)
+ * and the engine has no efficiency, shaft power or BEP. No box: the middle at the level would be the one efficiency
+ * row (one value makes no curve, pumpCurve.ts `column`), and with the crossings written at the level too, a flat
+ * line, no interior peak, so still no BEP (warning `bep-not-published`).
+ */
+function twiceWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const level = `${typed(p.level)} %`;
+  return (
+    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
+    `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}, and outside them nothing, no other contour crossing the curve. ` +
+    `So no row of the curve has an efficiency: the rows between the crossings are left blank (inside the contour) and those outside have none to read (it is not carried past the crossings), ` +
+    `and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
+    `No box is offered to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point: at ${level} it would be the curve's only efficiency row, and the engine reads ` +
+    `efficiency, and shaft power from it, only between two rows or more, and a best-efficiency point only at a peak with efficiency rows on both sides; with the crossings ` +
+    `written at ${level} too, the line would be flat: still no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
+  );
+}
+
 /** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
 export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
   const u = flowUnitText(flowUnit);
@@ -141,9 +170,10 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
       !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
       : `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (peak at or ${p.toEnd ? "past the end" : "before the start"} of the efficiency data)`}`;
-  const spans = ps.filter((p) => !p.lone), lone = ps.filter((p) => p.lone);
+  const spans = ps.filter((p) => !p.lone && !p.twice), lone = ps.filter((p) => p.lone), twice = ps.filter((p) => p.twice);
   return [
     spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",
     lone.length ? `efficiency at one contour crossing only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
+    twice.length ? `efficiency at two crossings of one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
   ].filter(Boolean).join("; ");
 }
