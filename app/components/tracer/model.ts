@@ -1,7 +1,7 @@
 // The tracer page's working state and what is derived from it (calibrations, data points, CSV).
 // Pure TypeScript: the maths lives in app/lib/tracer; this only wires the page's choices to it.
 import {
-  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, csvImpellerMm, resample, toAxis, toData, tracedCsv,
+  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, insideLevel, csvImpellerMm, resample, toAxis, toData, tracedCsv,
   type AxisRef, type AxisScale, type Calibration, type Contour, type Crossing, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
 } from "~/lib/tracer";
 import type { UnreadPeak } from "~/lib/tracer/peak";
@@ -112,8 +112,11 @@ export type ContourReading = {
   /** x in the flow axis's unit */
   crossings: Crossing[];
   efficiency: XY[];
-  /** `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour; `fromStart`: from the curve's start, inside it, to the first crossing (contours.ts). */
-  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; midpoint: number }[];
+  /**
+   * `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour; `fromStart`: from the curve's start, inside it,
+   * to the first crossing; `outside`: between two crossings of a level, outside its contour (the curve left it and comes back in; contours.ts).
+   */
+  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; outside: boolean; midpoint: number }[];
   levels: number[];
 };
 
@@ -135,8 +138,11 @@ export function contourReading(s: TracerState, head: Curve, cals: Map<number, Ca
   const levels = [...new Set(contours.map((c) => c.level))].sort((a, b) => a - b);
   const end = along.length ? along[along.length - 1].x : undefined;
   const start = along.length ? along[0].x : undefined;
-  const gaps = contourGaps(xs, end, start).map((g) => ({
-    from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, fromStart: g.fromStart === true, midpoint: back((g.from + g.to) / 2),
+  // Inside or outside each level's contour at the curve's first point, from the closed loops' geometry (null for an open contour).
+  const startInside = (level: number) => (along.length ? insideLevel(along[0], contours, level) : null);
+  const gaps = contourGaps(xs, end, start, startInside).map((g) => ({
+    from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, fromStart: g.fromStart === true,
+    outside: g.outside === true, midpoint: back((g.from + g.to) / 2),
   }));
   const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
   if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
@@ -166,16 +172,18 @@ function panelsOf(s: TracerState) {
 }
 
 /**
- * A head curve that crosses one contour only, once or twice (no other level): its efficiency is known at those
- * crossings only, which make no efficiency row (once: one value; twice: the two ends of the span inside the
+ * A head curve that crosses contours of one level only, once or more: its efficiency is known at those crossings
+ * only, which make no efficiency row (once: one value; twice or more: the ends of the spans inside and outside the
  * contour, unread between them, nothing past them). `tracedSets` writes no efficiency for it, `unreadPeaks` says so.
  */
-export const oneContourOnly = (xs: readonly Crossing[]) => (xs.length === 1 || xs.length === 2) && xs.every((x) => x.level === xs[0].level);
+export const oneContourOnly = (xs: readonly Crossing[]) => xs.length >= 1 && xs.every((x) => x.level === xs[0].level);
 
 /**
  * The innermost contour spans of the head curves whose efficiency comes from contours (one per span),
- * and a head curve that crosses one contour only (oneContourOnly): once (`lone`), its efficiency is known at that
- * flow only; twice (`twice`), at those two flows only, no row between or past them.
+ * the spans where a curve is outside a contour between two of its crossings (`valley`: it left it and comes back in),
+ * a head curve that crosses one contour only (oneContourOnly): once (`lone`), its efficiency is known at that
+ * flow only; twice or more (`twice`, with `at` the flows when more), at those flows only, no row between or past them; and one that crosses none of
+ * its panel's contours (`uncrossed`: no efficiency at all).
  */
 export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | string>): UnreadPeak[] {
   const out: UnreadPeak[] = [];
@@ -192,15 +200,25 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
       const [x] = r.crossings;
       out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, next: next(x.level), midpoint: x.x, taken: false });
     }
-    if (r.crossings.length === 2 && oneContourOnly(r.crossings)) {
-      const [a, b] = r.crossings;
+    if (r.crossings.length >= 2 && oneContourOnly(r.crossings)) {
+      const [a, b] = r.crossings, z = r.crossings[r.crossings.length - 1];
       const midpoint = r.gaps.find((g) => g.innermost && !g.toEnd && !g.fromStart)?.midpoint ?? (a.x + b.x) / 2;
-      out.push({ ...who, level: a.level, from: a.x, to: b.x, twice: true, next: next(a.level), midpoint, taken: false });
+      const at = r.crossings.length > 2 ? { at: r.crossings.map((x) => x.x) } : {};
+      out.push({ ...who, level: a.level, from: a.x, to: r.crossings.length > 2 ? z.x : b.x, twice: true, ...at, next: next(a.level), midpoint, taken: false });
       continue;
     }
+    if (!r.crossings.length && r.levels.length && h.points.length >= 2) {
+      out.push({ ...who, level: NaN, from: NaN, to: NaN, uncrossed: r.levels, next: null, midpoint: NaN, taken: false });
+    }
     if (r.crossings.length < 2) continue;
-    for (const g of r.gaps.filter((x) => x.innermost)) {
-      out.push({ ...who, level: g.level, from: g.from, to: g.to, toEnd: g.toEnd, fromStart: g.fromStart, next: next(g.level), midpoint: g.midpoint, taken: h.peakAtMidpoint === true });
+    // Two spans or more inside the top level's contours: ticked, every middle is written at the level and the engine takes the first of
+    // equal rows as the BEP, none when that is the middle of the span at the curve's start (the first efficiency row).
+    const inner = r.gaps.filter((x) => x.innermost);
+    const bepMidpoint = inner.length > 1 ? { bepMidpoint: inner[0].fromStart ? null : inner[0].midpoint } : {};
+    for (const g of r.gaps.filter((x) => x.innermost || x.outside)) {
+      const span = { ...who, level: g.level, from: g.from, to: g.to, next: next(g.level), midpoint: g.midpoint };
+      if (g.outside) out.push({ ...span, valley: true, taken: false });
+      else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...bepMidpoint, taken: h.peakAtMidpoint === true });
     }
   }
   return out;

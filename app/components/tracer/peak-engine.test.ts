@@ -165,3 +165,107 @@ describe("the box is offered only where ticking it changes what the engine reads
     });
   }
 });
+
+// Two islands of 74 % (rectangles 20–40 and 60–80 m³/h) inside the 70 % one (10–90) (construction). The curve clicked 0–95
+// crosses 74 % at 20, 40, 60 and 80: inside 20–40 and 60–80, outside 40–60, where the efficiency dips below 74 %. Clicked
+// 25–95 it starts inside the first island (inside 25–40); clicked 0–75 it ends inside the second (inside 60–75).
+const islands = (q0: number, q1: number, taken: boolean): TracerState =>
+  ({ ...state(q0, q1, taken), curves: [head(q0, q1, taken), box(2, 70, 10, 90), box(3, 74, 20, 40), box(4, 74, 60, 80)] });
+const twoIslands = [
+  { name: "both islands crossed", q0: 0, q1: 95, inside: [[20, 40], [60, 80]] },
+  { name: "starting inside the first island", q0: 25, q1: 95, inside: [[25, 40], [60, 80]] },
+  { name: "ending inside the second island", q0: 0, q1: 75, inside: [[20, 40], [60, 75]] },
+];
+/** Every warning of the page's one curve, and the engine's curve from its CSV. */
+function readAll(s: TracerState) {
+  const cals = calibrations(s);
+  const ps = unreadPeaks(s, cals);
+  const [set] = analyseCsv(csvOf(s, cals)).result.curveSets;
+  const curve = createPumpCurve({ points: set.points });
+  const eff = set.points.filter((p) => p.efficiency !== undefined).map((p) => ({ q: p.flow * 3600, e: p.efficiency! }));
+  return { ps, texts: ps.map((p) => peakWarning(p, "m3/h")), labels: ps.map((p) => peakBoxLabel(p, "m3/h")), curve, eff };
+}
+const near = (a: number, b: number) => Math.abs(a - b) <= 0.05; // the text's 0.1 m³/h; pixel rounding through the calibration
+
+describe("a curve that leaves a contour and comes back in: inside and outside alternate along it", () => {
+  for (const c of twoIslands) {
+    for (const taken of [false, true]) {
+      it(`two 74 % islands, ${c.name}, box ${taken ? "ticked" : "unticked"}`, () => {
+        const { ps, texts, labels, curve, eff } = readAll(islands(c.q0, c.q1, taken));
+        const spans = (f: (p: (typeof ps)[number]) => boolean) => ps.filter(f).map((p) => [p.from, p.to]);
+        // Outside 40–60 (the dip), inside the two islands' spans: nothing else is named.
+        expect(spans((p) => p.valley === true).flat().map((q, i) => near(q, [40, 60][i]))).toEqual([true, true]);
+        expect(spans((p) => !p.valley).flat().map((q, i) => near(q, c.inside.flat()[i]))).toEqual([true, true, true, true]);
+        const bep = curve.bep ? curve.bep.flow * 3600 : null;
+        const inIsland = (q: number) => ps.some((s) => !s.valley && q > s.from && q < s.to);
+        const ticked = readAll(islands(c.q0, c.q1, true)).curve.bep;
+        ps.forEach((p, i) => {
+          const text = texts[i];
+          if (p.valley) {
+            // The words: below 74 % there, left blank, read across from the rows either side, no BEP in it; no box.
+            expect(text).toMatch(/outside the 74 % contour: it leaves it at [\d.]+ m³\/h and comes back in at/);
+            expect(labels[i]).toBeNull();
+            expect(eff.filter((r) => r.q > p.from && r.q < p.to)).toEqual([]); // no row in the dip, ticked or not (its middle is no peak)
+            const before = eff.filter((r) => r.q <= p.from).at(-1), after = eff.find((r) => r.q >= p.to);
+            if (before && after) {
+              const mid = efficiencyAt(curve, p.midpoint / 3600)!;
+              expect(mid).toBeGreaterThanOrEqual(Math.min(before.e, after.e) - 1e-12);
+              expect(mid).toBeLessThanOrEqual(Math.max(before.e, after.e) + 1e-12);
+              expect(power(curve, p.midpoint)).not.toBeNull();
+            }
+            expect(bep !== null && bep > p.from && bep < p.to).toBe(false);
+            return;
+          }
+          // An island's span: its BEP claim is the engine's.
+          const here = num(text.match(/the engine takes the first of those equal rows, this one, ([\d.]+) m³\/h, as the best-efficiency point/));
+          const other = num(text.match(/the engine takes the first of those equal rows, ([\d.]+) m³\/h, as the best-efficiency point, not this one/));
+          const none = /no best-efficiency point is known for this curve/.test(text);
+          const outside = /puts the best-efficiency point, if it gives one, outside the 74 % contours/.test(text);
+          expect([Number.isFinite(here), Number.isFinite(other), none, outside].filter(Boolean)).toHaveLength(1);
+          if (Number.isFinite(here)) expect([near(bep ?? NaN, here), near(here, p.midpoint)]).toEqual([true, true]);
+          if (Number.isFinite(other)) expect([near(bep ?? NaN, other), near(other, p.midpoint)]).toEqual([true, false]);
+          if (none) expect(bep).toBeNull();
+          if (outside) expect(bep !== null && inIsland(bep)).toBe(false);
+          // Ticked, the middles are rows at 74 %, and the box's label names the BEP ticking gives.
+          if (taken) expect(eff.some((r) => near(r.q, p.midpoint) && r.e === 0.74)).toBe(true);
+          const named = num((labels[i] ?? "").match(/the first, ([\d.]+) m³\/h, is taken as its best-efficiency point$/));
+          const noneLabel = /the first is its first efficiency row, no best-efficiency point either way$/.test(labels[i] ?? "");
+          expect([Number.isFinite(named), noneLabel].filter(Boolean)).toHaveLength(1);
+          expect(ticked === null).toBe(noneLabel);
+          if (Number.isFinite(named)) expect(near(ticked!.flow * 3600, named)).toBe(true);
+        });
+      });
+    }
+  }
+});
+
+describe("a head curve that crosses none of its panel's contours", () => {
+  it("is named, and its words (no efficiency, shaft power or BEP) are the engine's", () => {
+    // The 74 % contour over 30–60 m³/h at heads 55–60 m, above the curve (50 m at shutoff): construction.
+    const s: TracerState = { ...state(0, 95, false), curves: [head(0, 95, false), { ...box(3, 74, 30, 60), points: [px(30, 55), px(60, 55), px(60, 60), px(30, 60)] }] };
+    const { ps, texts, labels, curve, eff } = readAll(s);
+    expect(ps).toHaveLength(1);
+    expect(texts[0]).toMatch(/^Curve 1 \(200 mm, 2900 rpm\): the efficiency is not read\. The curve crosses none of the contours on its panel \(74 %\)/);
+    expect(texts[0]).toMatch(/the CSV writes no efficiency for this curve, and the engine has no efficiency, shaft power or best-efficiency point for it from this chart/);
+    expect(labels[0]).toBeNull();
+    expect(eff).toEqual([]);
+    expect([curve.efficiency, curve.bep, power(curve, 45)]).toEqual([null, null, null]);
+    expect(curve.warnings.map((w) => w.code)).toContain("no-efficiency");
+  });
+});
+
+describe("a curve that crosses contours of one level only, three times or more", () => {
+  for (const taken of [false, true]) {
+    it(`the two 74 % islands alone, crossed at 20, 40, 60 and 80 m³/h (construction), box ${taken ? "ticked" : "unticked"}: none written, as the words say`, () => {
+      const s: TracerState = { ...state(0, 95, taken), curves: [head(0, 95, taken), box(3, 74, 20, 40), box(4, 74, 60, 80)] };
+      const { ps, texts, labels, curve, eff } = readAll(s);
+      expect(ps).toHaveLength(1);
+      const m = texts[0].match(/crosses contours of one level only, 74 %, 4 times, at ([\d.]+), ([\d.]+), ([\d.]+) and ([\d.]+) m³\/h/);
+      expect((m ?? []).slice(1).map((q, i) => near(Number(q), [20, 40, 60, 80][i]))).toEqual([true, true, true, true]);
+      expect(texts[0]).toMatch(/the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it/);
+      expect(labels[0]).toBeNull();
+      expect(eff).toEqual([]);
+      expect([curve.efficiency, curve.bep, power(curve, 50)]).toEqual([null, null, null]);
+    });
+  }
+});

@@ -56,34 +56,71 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
  * A flow span where the contours do not say the efficiency: between two consecutive crossings of one
  * level, or (`toEnd`) from the last crossing to the curve's end when the curve ends inside the
  * innermost contour it crosses, or (`fromStart`) from the curve's start to the first crossing when it
- * starts inside it. `innermost`: the level is the highest the curve crosses (its peak lies in such a
- * span, or for `toEnd` there or past the curve's end, for `fromStart` there or before its start).
+ * starts inside it. `innermost`: the level is the highest the curve crosses and the curve is inside its
+ * contour there (its peak lies in such a span, or for `toEnd` there or past the curve's end, for
+ * `fromStart` there or before its start). `outside`: between two crossings of a level the curve is outside
+ * that level's contour (it left it and comes back in): the efficiency dips below the level there.
  */
-export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true };
+export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true; outside?: true };
 
 /**
- * The spans between consecutive crossings (in order of flow) of the same level; with `end` (the
- * curve's last flow, same plane), also the span from the last crossing to it when that crossing is of
- * the highest level and the curve crosses that level an odd number of times (once, usually): the
- * curve went into that contour and did not come out. With `start` (the curve's first flow), the
- * mirror: the span from it to the first crossing when that crossing is of the highest level, crossed
- * an odd number of times, and the curve crosses some contour after it (a lone crossing says nothing of
- * which side is inside) — unless the span to the end was taken already (an odd count leaves the curve
- * inside at one end only; with the first and the last crossing both of that level the end is kept).
+ * Whether a point lies inside the contours of one level (even–odd rule over its closed loops: two islands
+ * of one level, or a ring, count right); null when that level has an open contour or none closed (an arm
+ * that leaves the chart has no inside the tracer can tell).
  */
-export function contourGaps(xs: readonly Crossing[], end?: number, start?: number): ContourGap[] {
+export function insideLevel(p: XY, contours: readonly Contour[], level: number): boolean | null {
+  const of = contours.filter((k) => k.level === level);
+  if (!of.length || of.some((k) => !k.closed || k.points.length < 3)) return null;
+  let inside = false;
+  for (const k of of) {
+    const r = k.points;
+    for (let i = 0, j = r.length - 1; i < r.length; j = i++) {
+      if (r[i].y > p.y !== r[j].y > p.y && p.x < r[j].x + ((p.y - r[j].y) * (r[i].x - r[j].x)) / (r[i].y - r[j].y)) inside = !inside;
+    }
+  }
+  return inside;
+}
+
+/**
+ * The spans between consecutive crossings (in order of flow) of the same level, each inside or `outside`
+ * that level's contour: inside and outside alternate along the curve at each crossing of the level,
+ * starting from whether the curve's first point is inside (`startInside(level)`: the contour geometry,
+ * insideLevel). Where that is not known (no `startInside`, or null: an open contour) the curve starts
+ * outside every level but the highest, and inside that only as before (helper "tracerone"): its first
+ * crossing is of that level, crossed an odd number of times, with another crossing after it and the last
+ * not of that level (a lone crossing says nothing of which side is inside; an odd count leaves the curve
+ * inside at one end only, and with the first and the last crossing both of that level the end is kept).
+ * With `end` (the curve's last flow, same plane), also the span from the last crossing to it when that
+ * crossing is of the highest level and the curve is inside it after: the curve went into that contour
+ * and did not come out. With `start` (the curve's first flow), the mirror: the span from it to the first
+ * crossing when that crossing is of the highest level and the curve starts inside it.
+ */
+export function contourGaps(xs: readonly Crossing[], end?: number, start?: number, startInside?: (level: number) => boolean | null): ContourGap[] {
   const top = Math.max(...xs.map((p) => p.level));
-  const out: ContourGap[] = [];
-  for (let i = 0; i + 1 < xs.length; i++) {
-    if (xs[i].level === xs[i + 1].level && xs[i + 1].x > xs[i].x) out.push({ from: xs[i].x, to: xs[i + 1].x, level: xs[i].level, innermost: xs[i].level === top });
-  }
-  const last = xs[xs.length - 1];
+  const first = xs[0], last = xs[xs.length - 1];
   const topCount = xs.filter((p) => p.level === top).length;
-  if (end !== undefined && last && last.level === top && topCount % 2 === 1 && end > last.x + 1e-9 * (1 + Math.abs(last.x))) {
-    out.push({ from: last.x, to: end, level: top, innermost: true, toEnd: true });
+  const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
+  const guessed = (level: number) =>
+    level === top && topCount % 2 === 1 && xs.length >= 2 && first.level === top && !(last.level === top && past(end, last.x));
+  const at0 = new Map<number, boolean>();
+  const inAtStart = (level: number) => {
+    if (!at0.has(level)) at0.set(level, startInside?.(level) ?? guessed(level));
+    return at0.get(level)!;
+  };
+  const seen = new Map<number, number>();
+  const out: ContourGap[] = [];
+  for (let i = 0; i < xs.length; i++) {
+    const L = xs[i].level;
+    seen.set(L, (seen.get(L) ?? 0) + 1);
+    if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x) {
+      const inside = inAtStart(L) !== (seen.get(L)! % 2 === 1);
+      out.push({ from: xs[i].x, to: xs[i + 1].x, level: L, innermost: inside && L === top, ...(inside ? {} : { outside: true as const }) });
+    }
   }
-  const first = xs[0];
-  if (start !== undefined && xs.length >= 2 && first.level === top && topCount % 2 === 1 && !out.some((g) => g.toEnd) && start < first.x - 1e-9 * (1 + Math.abs(first.x))) {
+  if (last && last.level === top && inAtStart(top) !== (topCount % 2 === 1) && past(end, last.x)) {
+    out.push({ from: last.x, to: end!, level: top, innermost: true, toEnd: true });
+  }
+  if (start !== undefined && first && first.level === top && inAtStart(top) && past(first.x, start)) {
     out.unshift({ from: start, to: first.x, level: top, innermost: true, fromStart: true });
   }
   return out;

@@ -2,7 +2,7 @@
 // middle the user took written as a row of its own, the words on the page and in the source line.
 // Invented curves and levels; expected values worked out by hand beside each check.
 import { describe, expect, it } from "vitest";
-import { contourGaps, tracedRows, type TracedSet } from "./index";
+import { contourGaps, insideLevel, tracedRows, type TracedSet } from "./index";
 import { peakBoxLabel, peakNote, peakWarning, type UnreadPeak } from "./peak";
 import { SOURCE_MAX, tracedSource } from "./sniff";
 
@@ -40,6 +40,34 @@ describe("contour gaps", () => {
     expect(contourGaps(xs, 80, 50)).toEqual([]);
     expect(contourGaps([{ x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }, { x: 50, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }], 80, 0)).toEqual([{ from: 30, to: 50, level: 74, innermost: true }]);
     expect(contourGaps([{ x: 50, y: 0, level: 74 }], 80, 35).filter((g) => g.fromStart)).toEqual([]);
+  });
+});
+
+describe("inside and outside along a curve that crosses one level three times or more", () => {
+  // Crossings of 74 % at 20, 40, 60 and 80 (invented): inside 20–40 and 60–80, outside 40–60 (the curve left the contour and came back in).
+  const four = [20, 40, 60, 80].map((x) => ({ x, y: 0, level: 74 }));
+  it("alternate from outside when the contour's geometry does not say (an open contour)", () => {
+    expect(contourGaps(four, 95, 0)).toEqual([
+      { from: 20, to: 40, level: 74, innermost: true }, { from: 40, to: 60, level: 74, innermost: false, outside: true }, { from: 60, to: 80, level: 74, innermost: true },
+    ]);
+  });
+  it("alternate from the curve's first point as the geometry places it", () => {
+    // First point at 25 inside the contour (invented): inside 25–40 and 60–80, outside 40–60, out at the end.
+    const three = four.slice(1);
+    expect(contourGaps(three, 95, 25, () => true)).toEqual([
+      { from: 25, to: 40, level: 74, innermost: true, fromStart: true }, { from: 40, to: 60, level: 74, innermost: false, outside: true }, { from: 60, to: 80, level: 74, innermost: true },
+    ]);
+    // Told it starts outside, the same three crossings end inside: 40–60 inside, 60–80 outside, 80 to the end at 95 inside.
+    expect(contourGaps(three, 95, 25, () => false)).toEqual([
+      { from: 40, to: 60, level: 74, innermost: true }, { from: 60, to: 80, level: 74, innermost: false, outside: true }, { from: 80, to: 95, level: 74, innermost: true, toEnd: true },
+    ]);
+  });
+  it("read the start from closed loops (even–odd), and not from an open contour", () => {
+    const sq = (a: number, b: number) => ({ level: 74, closed: true, points: [{ x: a, y: 0 }, { x: b, y: 0 }, { x: b, y: 10 }, { x: a, y: 10 }] });
+    expect(insideLevel({ x: 25, y: 5 }, [sq(20, 40), sq(60, 80)], 74)).toBe(true); // in the first square (construction)
+    expect(insideLevel({ x: 50, y: 5 }, [sq(20, 40), sq(60, 80)], 74)).toBe(false); // between the squares
+    expect(insideLevel({ x: 25, y: 5 }, [sq(20, 40), { ...sq(60, 80), closed: false }], 74)).toBeNull();
+    expect(insideLevel({ x: 25, y: 5 }, [sq(20, 40)], 70)).toBeNull(); // no contour of that level
   });
 });
 
@@ -136,6 +164,23 @@ describe("words about the peak", () => {
     ); // source: construction
     // No box for one contour crossed once or twice (the CSV writes no efficiency either way); a span's box as before.
     expect([peakBoxLabel(twice, "m3/h"), peakBoxLabel({ ...p, lone: true }, "m3/h"), peakBoxLabel(p, "m3/h")]).toEqual([null, null, "Take the middle of the 74 % contour as Curve 2’s best-efficiency point"]); // source: construction
+  });
+
+  it("in the source line: a dip outside a contour, two islands ticked, one level crossed four times, no contour crossed", () => {
+    const dip = { ...p, from: 40, to: 60, midpoint: 50, valley: true };
+    const first = { ...p, from: 20, to: 40, midpoint: 30, bepMidpoint: 30, taken: true }, second = { ...p, from: 60, to: 80, midpoint: 70, bepMidpoint: 30, taken: true };
+    const many = { ...p, from: 20, to: 80, twice: true, at: [20, 40, 60, 80] }, none = { ...p, level: NaN, from: NaN, to: NaN, midpoint: NaN, uncrossed: [70, 74] };
+    expect(peakNote([dip, first, second, many, none], "m3/h")).toBe(
+      "no contour crossed, no efficiency written: 160 mm, 2900 rpm; " +
+        "efficiency blank outside a contour between two of its crossings (read across from the rows either side, overstated): 160 mm, 2900 rpm below 74 % at 40.0–60.0 m³/h; " +
+        "peak not traced, efficiency blank inside the innermost contour: 160 mm, 2900 rpm above 74 % at 20.0–40.0 m³/h, middle 30.0 m³/h written at 74 %, the BEP; " +
+        "160 mm, 2900 rpm above 74 % at 60.0–80.0 m³/h, middle 70.0 m³/h written at 74 %, not the BEP; " +
+        "efficiency at crossings of one level only, none written: 160 mm, 2900 rpm 74 % at 20.0, 40.0, 60.0 and 80.0 m³/h",
+    ); // source: construction (the invented flows and levels above)
+    // No box for a dip, four crossings of one level, or none; one for the islands that names the BEP ticking gives.
+    expect([dip, many, none].map((x) => peakBoxLabel(x, "m3/h"))).toEqual([null, null, null]);
+    expect(peakBoxLabel(second, "m3/h")).toBe("Write the middle of each span inside a 74 % contour at 74 % for Curve 2: the first, 30.0 m³/h, is taken as its best-efficiency point"); // source: construction
+    expect(peakWarning(none, "m3/h")).toMatch(/^Curve 2 \(160 mm, 2900 rpm\): the efficiency is not read\. The curve crosses none of the contours on its panel \(70 %, 74 %\)/); // source: construction
   });
 
   it("names a curve imported without a speed as such (it read 'NaN rpm'), on the page and in the source line", () => {

@@ -16,7 +16,11 @@
  * the contour's level: between two crossings it is then taken as the BEP; at the curve's end or start
  * it is the last (or first) efficiency row, and the engine, which knows a BEP only at an interior peak
  * of the efficiency rows (pumpCurve.ts), gives that curve none, ticked or not: the row only carries the
- * efficiency and shaft power to the middle. These sentences say which, with the numbers, on the
+ * efficiency and shaft power to the middle. A curve inside two contours of its top level or more (two islands:
+ * `bepMidpoint`) gets every middle written, the engine's BEP the first of those equal rows. Where a curve is
+ * outside a contour between two of its crossings (`valley`: it left it and comes back in) the efficiency dips
+ * below the level, unread and read across too high by the engine; one that crosses contours of one level only
+ * three times or more (`twice` with `at`) or none of its panel's (`uncrossed`) gets no efficiency at all. These sentences say which, with the numbers, on the
  * tracer page (`peakWarning`) and in the source line the revision's note carries (`peakNote`, short:
  * the line has `SOURCE_MAX` characters).
  */
@@ -43,6 +47,18 @@ export type UnreadPeak = {
   lone?: boolean;
   /** The curve crosses one contour only, twice, at `from` and `to`: its efficiency is known at those two flows only, the ends of the span inside it; no box. */
   twice?: boolean;
+  /** With `twice`: the curve crosses contours of that level three times or more, at these flows (`from` the first, `to` the last). */
+  at?: number[];
+  /** Between `from` and `to`, two crossings of `level`, the curve is outside that level's contour (it left it and comes back in): the efficiency dips below the level; no box. */
+  valley?: boolean;
+  /** The curve crosses none of its panel's contours, whose levels these are: no efficiency from the chart; `level`, `from`, `to`, `midpoint` are NaN; no box. */
+  uncrossed?: number[];
+  /**
+   * The curve has two spans or more inside `level` contours (it leaves one and enters another, or the same again): ticked, every
+   * middle is written at the level and the engine's BEP is the first of equal rows: this middle, or null when the first is the
+   * middle of the span at the curve's start (its first efficiency row: no BEP). Absent with one span.
+   */
+  bepMidpoint?: number | null;
   /** The lowest level above `level` drawn on the panel (the peak is below it), or null. */
   next: number | null;
   /** The middle of the span (on the paper). */
@@ -62,8 +78,11 @@ const bound = (p: UnreadPeak) => (p.next == null ? `above ${typed(p.level)} %` :
 
 /** The tracer page's warning for one curve. */
 export function peakWarning(p: UnreadPeak, flowUnit: string): string {
+  if (p.uncrossed) return uncrossedWarning(p);
+  if (p.valley) return valleyWarning(p, flowUnit);
   if (p.lone) return loneWarning(p, flowUnit);
   if (p.twice) return twiceWarning(p, flowUnit);
+  if (p.bepMidpoint !== undefined) return manyWarning(p, flowUnit);
   if (p.toEnd) return edgeWarning(p, flowUnit, "end");
   if (p.fromStart) return edgeWarning(p, flowUnit, "start");
   const u = flowUnitText(flowUnit);
@@ -74,6 +93,31 @@ export function peakWarning(p: UnreadPeak, flowUnit: string): string {
     : `${head}, so the efficiency there is left blank: the engine reads it below ${typed(p.level)} % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
 }
 
+/**
+ * The warning for one of a curve's spans inside its top level's contours when it has two or more (it leaves a contour
+ * and enters another of that level, or the same one again): every span's rows are blank, so unticked the engine's
+ * BEP, if any, is a row outside them all; ticked, every middle is written at the level, and the engine's BEP is the first
+ * of those equal rows, none when that is the middle of the span at the curve's start (its first efficiency row).
+ */
+function manyWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const level = `${typed(p.level)} %`;
+  const where = p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}, the curve ending inside it (the peak there or past the end)`
+    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}, the curve starting inside it (the peak there or before the start)`
+    : `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
+  const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside a ${level} contour, ${where}, the contours say only that the efficiency is ${bound(p)}; the curve has other spans inside ${level} contours, each with its warning`;
+  const mid = `${fmtNum(p.midpoint)} ${u}`;
+  if (!p.taken)
+    return `${head}. The efficiency is left blank in all of them: the engine reads it below ${level} from the rows either side (power overstated) and puts the best-efficiency point, if it gives one, outside the ${level} contours. Tick the box to write the middle of each span at ${level}.`;
+  const bep = p.bepMidpoint === null
+    ? `the first of those equal rows is the middle of the span at the curve's start, its first efficiency row, so no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`
+    : p.bepMidpoint === p.midpoint ? `the engine takes the first of those equal rows, this one, ${mid}, as the best-efficiency point`
+    : `the engine takes the first of those equal rows, ${fmtNum(p.bepMidpoint!)} ${u}, as the best-efficiency point, not this one`;
+  return `${head}. The middle of this span, ${mid}, is written at ${level} (understated ${understated(p)}), the rest of it blank, and so is every span's middle: ${bep}.`;
+}
+
+/** "20.0, 40.0 and 60.0". */
+const listed = (xs: readonly number[]) => `${xs.slice(0, -1).map((x) => fmtNum(x)).join(", ")} and ${fmtNum(xs[xs.length - 1])}`;
 const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`);
 
 /**
@@ -110,12 +154,16 @@ function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): st
 /**
  * The box's label beside a span's warning: for a span between two crossings it takes the middle as the best-efficiency
  * point; for one at the curve's end or start it writes the middle at the level, which carries the efficiency and shaft
- * power to there but gives no best-efficiency point (edgeWarning). Null, no box, for a curve that crosses one contour
- * only, once or twice: the CSV writes no efficiency for it, ticked or not (loneWarning, twiceWarning).
+ * power to there but gives no best-efficiency point (edgeWarning); with two spans or more between crossings (two islands of
+ * one level) it writes every middle, and the engine takes the first of equal rows as the BEP. Null, no box, for a curve
+ * that crosses one contour only, once or twice, or none (the CSV writes no efficiency for it, ticked or not: loneWarning,
+ * twiceWarning, uncrossedWarning), and for a span outside a contour (valleyWarning: its middle is no peak).
  */
 export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
-  if (p.lone || p.twice) return null;
+  if (p.lone || p.twice || p.valley || p.uncrossed) return null;
   const level = `${typed(p.level)} %`;
+  if (p.bepMidpoint !== undefined)
+    return `Write the middle of each span inside a ${level} contour at ${level} for ${p.curve}: ${p.bepMidpoint === null ? "the first is its first efficiency row, no best-efficiency point either way" : `the first, ${fmtNum(p.bepMidpoint)} ${flowUnitText(flowUnit)}, is taken as its best-efficiency point`}`;
   if (!p.toEnd && !p.fromStart) return `Take the middle of the ${level} contour as ${p.curve}’s best-efficiency point`;
   const mid = `${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}`;
   return `Write the middle of the span inside the ${level} contour, ${mid}, at ${level} for ${p.curve}: efficiency and shaft power ${p.toEnd ? "up to" : "from"} ${mid}, no best-efficiency point either way`;
@@ -148,6 +196,15 @@ function loneWarning(p: UnreadPeak, flowUnit: string): string {
 function twiceWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const level = `${typed(p.level)} %`;
+  if (p.at)
+    return (
+      `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses contours of one level only, ${level}, ${p.at.length} times, at ${listed(p.at)} ${u}: ` +
+      `the efficiency is known at those flows only (${level}); between them the contours say only that it is above or below ${level} (inside or outside a contour), and outside them nothing, ` +
+      `no other contour crossing the curve. So no row of the curve has an efficiency: the rows between the crossings are left blank (unread) and those outside have none to read ` +
+      `(it is not carried past the crossings), and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
+      `No box is offered to write the middles of the spans inside the contour at ${level}: with the crossings at ${level} too they would make a flat line, ` +
+      `the dips between them read at ${level} and no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
+    );
   return (
     `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
     `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}, and outside them nothing, no other contour crossing the curve. ` +
@@ -156,6 +213,38 @@ function twiceWarning(p: UnreadPeak, flowUnit: string): string {
     `No box is offered to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point: at ${level} it would be the curve's only efficiency row, and the engine reads ` +
     `efficiency, and shaft power from it, only between two rows or more, and a best-efficiency point only at a peak with efficiency rows on both sides; with the crossings ` +
     `written at ${level} too, the line would be flat: still no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
+  );
+}
+
+/**
+ * The warning for a span between two crossings of one level where the curve is outside that level's contour (it leaves
+ * it and comes back in: two islands of one level, or a bay in one). The efficiency dips below the level there, by how
+ * much the chart does not say: the rows are left blank (contours.ts), and the engine reads across them from the rows
+ * with efficiency either side (a monotone cubic: between their values), so it reads the dip too high and the shaft
+ * power too low. No box: the span's middle is no peak.
+ */
+function valleyWarning(p: UnreadPeak, flowUnit: string): string {
+  const u = flowUnitText(flowUnit);
+  const level = `${typed(p.level)} %`;
+  return (
+    `${p.curve} (${keyText(p)}): the efficiency dips and is not traced. From ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u} the curve is outside the ${level} contour: it leaves it at ${fmtNum(p.from)} ${u} ` +
+    `and comes back in at ${fmtNum(p.to)} ${u}, so the contours say only that the efficiency there is below ${level}, not how far. It is left blank: the engine reads it across the blank rows ` +
+    `from the rows with efficiency either side, between their values, so it reads the dip too high (efficiency overstated, shaft power understated) and puts no best-efficiency point in it. ` +
+    `Trace the lower contours the curve crosses there, or its efficiency curve on an efficiency panel.`
+  );
+}
+
+/**
+ * The warning for a head curve that crosses none of its panel's contours (its efficiency from contours, no efficiency
+ * curve of its own): no crossing, no efficiency value, so the CSV writes none (model.ts `tracedSets`: fewer than two)
+ * and the engine has no efficiency, shaft power or BEP for the curve (warning `no-efficiency`).
+ */
+function uncrossedWarning(p: UnreadPeak): string {
+  const levels = (p.uncrossed ?? []).map((L) => `${typed(L)} %`).join(", ");
+  return (
+    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses none of the contours on its panel (${levels}), so the contours give no efficiency along it: ` +
+    `the CSV writes no efficiency for this curve, and the engine has no efficiency, shaft power or best-efficiency point for it from this chart. ` +
+    `Trace the curve over its whole length and the contours it passes through (an island reaching the curve, a contour closed where the chart closes it), or its efficiency curve on an efficiency panel.`
   );
 }
 
@@ -168,12 +257,17 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
     : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`;
   const one = (p: UnreadPeak) =>
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
-      !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
+      p.bepMidpoint !== undefined ? (p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %, ${p.bepMidpoint === p.midpoint ? "the BEP" : "not the BEP"}` : "")
+      : !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
       : `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (peak at or ${p.toEnd ? "past the end" : "before the start"} of the efficiency data)`}`;
-  const spans = ps.filter((p) => !p.lone && !p.twice), lone = ps.filter((p) => p.lone), twice = ps.filter((p) => p.twice);
+  const spans = ps.filter((p) => !p.lone && !p.twice && !p.valley && !p.uncrossed), lone = ps.filter((p) => p.lone), twice = ps.filter((p) => p.twice && !p.at), many = ps.filter((p) => p.at);
+  const valley = ps.filter((p) => p.valley), uncrossed = ps.filter((p) => p.uncrossed);
   return [
+    uncrossed.length ? `no contour crossed, no efficiency written: ${uncrossed.map(keyText).join("; ")}` : "",
+    valley.length ? `efficiency blank outside a contour between two of its crossings (read across from the rows either side, overstated): ${valley.map((p) => `${keyText(p)} below ${typed(p.level)} % at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`).join("; ")}` : "",
     spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",
     lone.length ? `efficiency at one contour crossing only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
     twice.length ? `efficiency at two crossings of one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
+    many.length ? `efficiency at crossings of one level only, none written: ${many.map((p) => `${keyText(p)} ${typed(p.level)} % at ${listed(p.at!)} ${u}`).join("; ")}` : "",
   ].filter(Boolean).join("; ");
 }
