@@ -3,14 +3,15 @@ import type { Route } from "./+types/api.v1.systems.$id.preview";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemWorkbench } from "~/lib/projects";
-import { SystemInputSchema } from "~/lib/projects/hydraulics";
+import { SystemInputEntrySchema } from "~/lib/projects/hydraulics";
 import { badRequest, methodNotAllowed, notFound, notJsonBody, refuseMethod } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
 import { workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
-// unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout.
+// unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout. The input is one entered now, so it
+// follows the editor's rules (`SystemInputEntrySchema`: a static head at high level below the low one is a 400 naming both).
 export async function action({ request, params }: Route.ActionArgs) {
   if (request.method !== "POST") return methodNotAllowed("POST"); // an action runs on any method but GET: PUT/PATCH/DELETE are not ours
   const c = await requireApi(request, "project.read");
@@ -24,7 +25,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   } catch {
     return badRequest("The body must be JSON: { input: {…} }.");
   }
-  const parsed = v.safeParse(v.object({ input: SystemInputSchema }), body);
+  const parsed = v.safeParse(v.object({ input: SystemInputEntrySchema }), body);
   if (!parsed.success) {
     return badRequest("The system inputs are not valid.", {
       errors: parsed.issues.map((i) => ({ field: (i.path ?? []).map((p) => String(p.key)).join("."), message: renderUnits(i.message, c.units) })),

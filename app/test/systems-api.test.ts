@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import type { Viewer } from "~/lib/libraries";
-import { addCandidate, createProject, createSystem, systemWorkbench } from "~/lib/projects";
+import { addCandidate, createProject, createSystem, saveSystem, systemWorkbench } from "~/lib/projects";
 import { searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
 import { workbenchView } from "~/lib/projects/workbench-view";
@@ -14,6 +14,7 @@ import { searchResultView } from "~/lib/projects/search-view";
 import { call, makeMember, type TestMember } from "./harness";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
+import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 
@@ -91,6 +92,38 @@ describe("GET /api/v1/systems/:id", () => {
     expect(noToken.status).toBe(401);
     const post = await call(apiSystem.action as never, { path: `/api/v1/systems/${systemId}`, params: { id: String(systemId) }, method: "POST", headers: { authorization: `Bearer ${token}` } });
     expect(post.status).toBe(405);
+  });
+});
+
+describe("POST /api/v1/systems/:id/preview: the static heads' order", () => {
+  const preview = (input: SystemInput) =>
+    call(apiPreview.action as never, {
+      path: `/api/v1/systems/${systemId}/preview`, params: { id: String(systemId) }, method: "POST",
+      headers: { authorization: `Bearer ${token}`, "content-type": "application/json" }, body: JSON.stringify({ input }),
+    });
+
+  test("high level below low (30 m then 26 m, open) → 400 problem+json at staticHigh naming both, the editor's words (was 200: only the form refused it)", async () => {
+    const r = await preview({ ...booster(), staticLow: 30, staticHigh: 26 });
+    expect(r.status).toBe(400);
+    expect(r.headers.get("content-type")).toBe("application/problem+json");
+    const errors = (r.body as { errors: { field: string; message: string }[] }).errors;
+    // The editor's message (system-form.ts, via staticHighBelowLow), written out in SI for a token.
+    expect(errors).toEqual([{ field: "input.staticHigh", message: expect.stringMatching(/^The static head at high level, 26(\.0+)? m, is below the one at low level, 30(\.0+)? m: high level is the most lift/) }]);
+    // Control: the same band the right way round, one level, and a closed loop (its static heads unused) all preview.
+    expect((await preview({ ...booster(), staticLow: 26, staticHigh: 30 })).status).toBe(200);
+    expect((await preview({ ...booster(), staticLow: 28, staticHigh: 28 })).status).toBe(200);
+    expect((await preview({ ...booster(), mode: "closed-loop", controlHead: 5, staticLow: 30, staticHigh: 26 })).status).toBe(200);
+  });
+
+  test("a system stored with high below low still reads, least to most (the same curve as the band typed in order); saving one now is refused", async () => {
+    const p = await createProject(v, { name: "Swapped band", site: "", description: "" });
+    const swapped = await createSystem(v, p, "Swapped", { ...booster(), staticLow: 30, staticHigh: 26 });
+    const ordered = await createSystem(v, p, "Ordered", booster());
+    const a = await get(apiSystem.loader, `/api/v1/systems/${swapped}`, String(swapped));
+    const b = await get(apiSystem.loader, `/api/v1/systems/${ordered}`, String(ordered));
+    expect(a.status).toBe(200);
+    expect((a.body as { evaluation: unknown }).evaluation).toEqual((b.body as { evaluation: unknown }).evaluation);
+    await expect(saveSystem(v, swapped, "Swapped", { ...booster(), staticLow: 30, staticHigh: 26 })).rejects.toThrow(/is below the one at low level/);
   });
 });
 

@@ -16,7 +16,7 @@ import {
   fluidOf,
   systemSpec,
   candidatesFlowMax,
-  SystemInputSchema,
+  SystemInputEntrySchema,
   type Adjustment,
   type SystemInput,
 } from "./hydraulics";
@@ -167,7 +167,7 @@ export async function createSystem(viewer: Viewer, projectId: number, name: stri
 
 export async function saveSystem(viewer: Viewer, systemId: number, name: string, input: SystemInput) {
   const s = await systemRecord(viewer, systemId); // saving is how a stored input that no longer passes is fixed
-  await db().update(systems).set({ name, inputJson: JSON.stringify(v.parse(SystemInputSchema, input)), updatedAt: new Date() }).where(eq(systems.id, s.id));
+  await db().update(systems).set({ name, inputJson: JSON.stringify(v.parse(SystemInputEntrySchema, input)), updatedAt: new Date() }).where(eq(systems.id, s.id));
 }
 
 /** Copies the stored document as it is (one that does not pass the schema stays in need of review in the copy). */

@@ -1,6 +1,7 @@
 // A selection's frozen document (selections.frozen_json) read honestly: parsed and checked on every read against
 // `FrozenSelectionSchema` — the parts the report, the exports and the field pages read, with their types (and the system
-// inputs and adjustment against their own schemas, which the field check computes with). A document that fails (edited in
+// inputs and adjustment against their own schemas, which the field check computes with — the system input with the rules it
+// was frozen under, `FrozenSystemInputSchema`). A document that fails (edited in
 // the database, cut off, not JSON) is named, never half-rendered: the services refuse it (409, `storedSelectionRefusal`
 // in selections.server.ts). Extra keys are allowed and kept: a document that passes is handed on as stored, so the JSON
 // export and the field check's fingerprint are what was frozen. Pure.
@@ -8,7 +9,7 @@ import * as v from "valibot";
 import type { Quantity } from "~/engine";
 import { VERDICT_STATUSES } from "~/engine";
 import { AdjustmentSchema } from "./candidate-input";
-import { SystemInputSchema } from "./system-input";
+import { FrozenSystemInputSchema } from "./system-input";
 import { INPUT_ITEMS, INPUT_LABELS, INPUT_QUANTITIES } from "./stored-input";
 import { readStoredDoc, type DocProblem, type DocWords } from "./stored-doc";
 import type { Adjustment, CurvePointsIn, evaluateCandidate, evaluateSystem, SystemInput } from "./hydraulics";
@@ -118,7 +119,8 @@ export const FrozenSelectionSchema = obj({
   format: str,
   frozenAt: v.pipe(str, v.isoTimestamp("The date it was frozen is not a date and time.")),
   project: obj({ id: num, name: str }),
-  system: obj({ id: num, name: str, input: SystemInputSchema }),
+  /** The input under the rules it was frozen under (`FrozenSystemInputSchema`): a rule added since never refuses what was signed. */
+  system: obj({ id: num, name: str, input: FrozenSystemInputSchema }),
   systemCurve: v.nullable(SystemCurve),
   pump: obj({
     label: str, model: str, type: str, size: str,

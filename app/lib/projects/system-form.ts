@@ -6,7 +6,7 @@ import { qtExact, qtPair } from "~/engine/quantityText";
 import { countField, decimalField } from "../shared/decimal";
 import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -174,8 +174,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
   // Low level is the least lift, high level the most (the fields' hints; the engine refuses a band whose top is below its
   // bottom, system.ts prepareSystem): a pair typed the other way round is refused at the field, never swapped unsaid.
   if (mode === "open" && staticLow != null && staticHigh != null && staticHigh < staticLow) {
-    const [high, low] = qtPair("head", staticHigh, staticLow);
-    errors.staticHigh ??= `The static head at high level, ${high}, is below the one at low level, ${low}: high level is the most lift and low level the least, so high must be at least low. Swap them, or type the same value in both for one level.`;
+    errors.staticHigh ??= staticHighBelowLow(staticHigh, staticLow);
   }
   const raw = {
     fluid,

@@ -40,6 +40,15 @@ const belowDiameter = (key: "roughness" | "agedRoughness", label: string) =>
     ),
     [key],
   );
+/** The rule selections were frozen under before helper "systexts": roughness below the whole inner diameter. */
+const belowWholeDiameter = (key: "roughness" | "agedRoughness", label: string) =>
+  v.forward(
+    v.check<PipeRunShape, (i: v.CheckIssue<PipeRunShape>) => string>(
+      (r) => r[key] < r.diameter,
+      (i) => `${label} ${qt("roughness", i.input[key])} is not below the inner diameter ${qt("diameter", i.input.diameter)}: wall roughness that high would close the bore, which is physically meaningless.`,
+    ),
+    [key],
+  );
 type PipeRunShape = v.InferOutput<typeof PipeRunObject>;
 
 const PipeRunObject = v.object({
@@ -62,8 +71,20 @@ const PipeRunObject = v.object({
 });
 
 export const PipeRunSchema = v.pipe(PipeRunObject, belowDiameter("roughness", "Roughness"), belowDiameter("agedRoughness", "Aged roughness"));
+/** A frozen selection's run: the rules it was frozen under (roughness below the whole bore), never a rule added since. */
+const FrozenPipeRunSchema = v.pipe(PipeRunObject, belowWholeDiameter("roughness", "Roughness"), belowWholeDiameter("agedRoughness", "Aged roughness"));
 
-export const SystemInputSchema = v.object({
+/**
+ * The words for a static head at high level below the one at low level (high is the most lift, low the least), with both
+ * values: the editor's field and the API's input (`SystemInputEntrySchema`) say the same.
+ */
+export function staticHighBelowLow(high: number, low: number): string {
+  const [h, l] = qtPair("head", high, low);
+  return `The static head at high level, ${h}, is below the one at low level, ${l}: high level is the most lift and low level the least, so high must be at least low. Swap them, or type the same value in both for one level.`;
+}
+
+/** The system input's fields with `run` as each pipe run's schema (the live rules, or those a selection was frozen under). */
+const systemInputObject = <R extends typeof PipeRunSchema | typeof FrozenPipeRunSchema>(run: R) => v.object({
   fluid: v.variant("kind", [
     v.object({ kind: v.literal("water") }),
     v.object({
@@ -87,7 +108,7 @@ export const SystemInputSchema = v.object({
   suctionSurfacePressure: pos("Suction surface pressure"),
   /** Suction liquid surface above the pump centreline, m (negative: suction lift). */
   suctionStaticHead: num("Suction static head"),
-  runs: v.pipe(v.array(PipeRunSchema), v.maxLength(MAX_RUNS, `At most ${MAX_RUNS} pipe runs.`)),
+  runs: v.pipe(v.array(run), v.maxLength(MAX_RUNS, `At most ${MAX_RUNS} pipe runs.`)),
   duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
   /** Largest flow drawn, m³/s (0: from the duty). */
   flowMax: nonNeg("Largest flow"),
@@ -106,6 +127,38 @@ export const SystemInputSchema = v.object({
   /** Load profile, control mode and life-cycle cost settings (documents stored before them parse with the defaults). */
   energy: v.optional(EnergySettingsSchema, () => ({ ...DEFAULT_ENERGY_SETTINGS })),
 });
+
+/**
+ * A system's stored input (`input_json`), read on every use: today's rules, so a stored input that breaks one needs review
+ * before anything is computed from it (stored-input.ts). Not the order of the static heads: a document stored with high
+ * below low still reads, least to most (`systemSpec`).
+ */
+export const SystemInputSchema = systemInputObject(PipeRunSchema);
+
+/**
+ * A system input entered now (the editor's save, the preview API): the stored rules and the static head at high level not
+ * below the one at low level in an open system (`staticHighBelowLow`, at `staticHigh`). A new rule on what is typed goes here
+ * or into `SystemInputSchema`; a frozen selection reads with `FrozenSystemInputSchema`.
+ */
+export const SystemInputEntrySchema = v.pipe(
+  SystemInputSchema,
+  v.forward(
+    v.check<SystemInput, (i: v.CheckIssue<SystemInput>) => string>(
+      (s) => s.mode !== "open" || s.staticHigh >= s.staticLow,
+      (i) => staticHighBelowLow(i.input.staticHigh, i.input.staticLow),
+    ),
+    ["staticHigh"],
+  ),
+);
+
+/**
+ * A frozen selection's system input (stored-selection.ts): the rules it was frozen under, so what was signed always reads
+ * back. Today's rules less those added after selections were first frozen: roughness below the whole inner diameter, not
+ * half of it (helper "systexts"). A rule added to the input later stays out of this schema (it goes into the run's checks or
+ * `SystemInputEntrySchema`, never into the shared fields); nothing recomputes a frozen selection, so it never meets the engine's
+ * newer checks.
+ */
+export const FrozenSystemInputSchema = systemInputObject(FrozenPipeRunSchema);
 
 export type SystemInput = v.InferOutput<typeof SystemInputSchema>;
 export type PipeRunInput = v.InferOutput<typeof PipeRunSchema>;
