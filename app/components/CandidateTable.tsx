@@ -5,7 +5,7 @@
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
-import type { BandPoint } from "~/lib/projects/candidate-judgement";
+import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
@@ -24,6 +24,19 @@ function range(band: BandPoint[] | undefined, pick: (b: BandPoint) => number | n
   const shown = xs.map((x) => fmt(x));
   return shown.every((t) => t === shown[0]) ? shown[0] : shown.join(" – ");
 }
+
+/**
+ * The NPSH margin ratios over the band, lowest – highest, or null where none means anything: never a ratio where NPSHa ≤ 0
+ * (read by NPSHa). The judged points (`judgedAt`) when kept; a selection frozen before them: the band's two edges.
+ */
+function npshBandRange(band: BandPoint[] | undefined, n: NpshJudgement | null | undefined): string | null {
+  if (n?.judgedAt) return npshJudgedRange(n);
+  const meaningful = (band ?? []).filter((b) => b.npshMarginRatio != null && !(b.npshAvailable != null && b.npshAvailable <= 0));
+  return meaningful.length ? range(meaningful, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin)) : null;
+}
+
+/** The Crossing cell of a pump at zero flow: its shut-off head only balances the system's there (engine `dead-head`). */
+const deadHeadText = (units: UnitChoice, head: number) => `dead-head at ${fmtHead(units, head)}: no delivery (the shut-off head only balances the system's at zero flow)`;
 
 /** " for 2 duty pumps" after a total of several pumps; "" for a single pump. */
 const forAll = (c: Cand) => {
@@ -59,7 +72,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
-    ["Crossing", (c) => (c.error ? "—" : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
+    ["Crossing", (c) => (c.error ? "—" : c.result?.operating?.flow === 0 ? <span className="text-duty-ink">{deadHeadText(unitSystem, c.result.operating.head)}</span> : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
     ["Band edges", (c) => (c.result?.band?.length ? c.result.band.map((b) => b.edge).join(" – ") : "—")],
     ["Flow over the band", (c) => <span data-testid={`band-flow-${c.id}`}>{range(c.result?.band, (b) => b.flow, (x) => fmtFlow(unitSystem, x))}</span>],
     ["Head over the band", (c) => range(c.result?.band, (b) => b.head, (x) => fmtHead(unitSystem, x))],
@@ -68,10 +81,11 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["NPSH margin over the band", (c) => {
       const n = c.result?.npsh;
       const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
+      const ratios = npshBandRange(c.result?.band, n);
       return (
         <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
-          {npshJudgedRange(n) ?? range(c.result?.band, (b) => b.npshMarginRatio, (x) => npshMarginText(x, n?.requiredMargin))}
-          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}> — {npshLowestText(unitSystem, n)} ({n.status})</span> : null}
+          {ratios ?? (n && n.status !== "unknown" ? null : "—")}
+          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}>{ratios ? " — " : ""}{npshLowestText(unitSystem, n)} ({n.status})</span> : null}
           {n && n.status === "unknown" && npshUnjudgedText(n) ? (
             <span className="font-semibold text-duty-ink">
               {" — "}

@@ -22,7 +22,7 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
       </p>
       {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
       <p className="hidden text-xs print:block" data-testid="energy-print">
-        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} steps${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
+        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
         {lcc ? ` (${lcc.source})` : ""}.
       </p>

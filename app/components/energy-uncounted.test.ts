@@ -38,7 +38,7 @@ describe("no step counted: energy and life-cycle cost not computed, with the rea
     expect(rows(none)["Life-cycle cost (present value)"]).toBe(`not computed (${why})`);
     expect(panel(none)).toContain(`Not drawn: 1 Pump A: not computed (${why}).`);
     expect(panel(none)).not.toMatch(/2500\.00 EUR over 10 years/);
-    expect(report(none)).toContain(`Energy per year over 1 steps, 1000 h/yr: not computed (${why}); life-cycle cost (present value): not computed (${why}).`);
+    expect(report(none)).toContain(`Energy per year over 1 step, 1000 h/yr: not computed (${why}); life-cycle cost (present value): not computed (${why}).`);
     const csv = csvOf(none);
     expect(csvFigure(csv, "cycle_annual_energy_electrical")).toBe(`not computed: ${why}`);
     expect(csvFigure(csv, "lcc_total_present_value")).toBe(`not computed: ${why}`);
@@ -75,7 +75,9 @@ describe("each energy cost per year names the hours it counts", () => {
     expect(html).toMatch(/Energy per year at the operating point × 8000 h\/yr \(electrical, every running hour there\) \d+ kWh /);
     expect(html).toMatch(/Energy per year over the duty cycle, 1000 h\/yr \d+ kWh /);
     expect(panel(e)).toMatch(/\d+ kWh · \d+\.\d\d EUR \(duty cycle, 1000 h\/yr\)/);
-    expect(report(e)).toMatch(/Energy per year over 1 steps, 1000 h\/yr: \d+ kWh;/);
+    expect(report(e)).toMatch(/Energy per year over 1 step, 1000 h\/yr: \d+ kWh;/);
+    // English number (common practice): one step, two steps.
+    expect(report(withSteps([{ flowFraction: 1.5, hours: 1000 }, { flowFraction: 1, hours: 1 }]))).toMatch(/Energy per year over 2 steps, 1001 h\/yr: /);
   });
   it("the CSV gives each cost's hours", () => {
     const csv = selectionCsv(1, "t", { system: { input }, pump: { library: { traced: null } }, adjustment: DEFAULT_ADJUSTMENT, result: r, energy: e } as unknown as FrozenSelection);

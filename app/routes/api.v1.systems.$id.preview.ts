@@ -6,7 +6,7 @@ import { systemWorkbench } from "~/lib/projects";
 import { SystemInputEntrySchema } from "~/lib/projects/hydraulics";
 import { badRequest, methodNotAllowed, notFound, notJsonBody, refuseMethod } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
-import { workbenchView } from "~/lib/projects/workbench-view";
+import { workbenchApiView, workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
@@ -33,7 +33,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   try {
     const bench = await systemWorkbench(viewerOfApi(c), id.output, parsed.output.input);
-    return Response.json(renderDeep(workbenchView(bench), c.units)); // text in the caller's units (SI for tokens)
+    return Response.json(renderDeep(workbenchApiView(workbenchView(bench)), c.units)); // text in the caller's units (SI for tokens)
   } catch (e) {
     if ((e as { init?: { status?: number } })?.init?.status === 404) return notFound();
     throw e;

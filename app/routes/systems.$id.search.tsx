@@ -97,6 +97,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       verdict: r.verdict,
       // What NPSH over the band says against the verdict, on its line (verdict-npsh.ts); tokens rendered by renderDeep.
       verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
+      // The cautions that qualify the verdict (dead-head, unstable crossings, band edges', start of a pump in parallel or series).
+      cautions: r.cautions,
       already: already.has(r.curveSetId),
     })),
     paging: res.paging,
@@ -261,6 +263,12 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>{r.how}</td>
                     <td className="max-w-xs">
                       <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} />
+                      {r.cautions.length ? (
+                        <details className="text-xs text-duty-ink" data-testid={`search-cautions-${r.curveSetId}`}>
+                          <summary>{r.cautions.length} caution{r.cautions.length === 1 ? "" : "s"}</summary>
+                          <ul className="list-disc pl-4">{r.cautions.map((w) => <li key={w}>{w}</li>)}</ul>
+                        </details>
+                      ) : null}
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>
                     <td>
@@ -270,9 +278,10 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     <td data-testid={`search-npsh-${r.curveSetId}`}>
                       {r.npsh ? (
                         <span>
-                          {r.npsh.range ?? "—"}
-                          {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}> — {r.npsh.lowest} ({r.npsh.status})</span> : null}
-                          {r.npsh.unjudged ? <span className="font-semibold text-duty-ink"> — {r.npsh.unjudged} (unknown)</span> : null}
+                          {/* No ratio where NPSHa ≤ 0 decides: the lowest NPSHa alone, without a dash for the missing range. */}
+                          {r.npsh.range ?? (r.npsh.lowest || r.npsh.unjudged ? "" : "—")}
+                          {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}>{r.npsh.range ? " — " : ""}{r.npsh.lowest} ({r.npsh.status})</span> : null}
+                          {r.npsh.unjudged ? <span className="font-semibold text-duty-ink">{r.npsh.range ? " — " : ""}{r.npsh.unjudged} (unknown)</span> : null}
                         </span>
                       ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
                     </td>

@@ -9,7 +9,7 @@ import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, saveSystem, systemWorkbench } from "~/lib/projects";
 import { searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
-import { workbenchView } from "~/lib/projects/workbench-view";
+import { workbenchApiView, workbenchView } from "~/lib/projects/workbench-view";
 import { searchResultView } from "~/lib/projects/search-view";
 import { call, makeMember, type TestMember } from "./harness";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
@@ -55,8 +55,9 @@ describe("GET /api/v1/systems/:id", () => {
     const body = r.body as ReturnType<typeof workbenchView> & { input: SystemInput; system: { id: number; name: string } };
     expect(body.system).toMatchObject({ id: systemId, name: "Booster" });
     expect(body.input.duty).toEqual({ flow: 40 / 3600, head: 38 });
-    // A token's API answers in SI: the view's quantity tokens written out in SI units.
-    const expected = renderDeep(JSON.parse(JSON.stringify(workbenchView(await systemWorkbench(v, systemId)))), SI_UNITS);
+    // A token's API answers in SI: the view's quantity tokens written out in SI units; the API's view adds verdictNpsh
+    // and leaves out margin ratios where NPSHa ≤ 0 (systems-api-npsh.test.ts).
+    const expected = renderDeep(JSON.parse(JSON.stringify(workbenchApiView(workbenchView(await systemWorkbench(v, systemId))))), SI_UNITS);
     expect(JSON.stringify(body)).not.toContain("⟦");
     expect(body.evaluation).toEqual(expected.evaluation);
     expect(body.candidates).toEqual(expected.candidates);

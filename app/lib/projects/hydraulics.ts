@@ -191,7 +191,16 @@ export type CandidateEvaluation = {
    */
   viscosity: ReturnType<typeof viscositySummary>;
   warnings: string[];
+  /**
+   * The warnings that qualify the verdict, also among `warnings`: the design point's dead-head, unstable crossings, runout
+   * and curve jump, each band edge's, a pump in parallel or series that cannot start (the search row carries them).
+   * Absent in selections frozen before it was kept.
+   */
+  cautions?: string[];
 };
+
+/** The operating point's own warnings (engine solveOperatingPoint) that qualify the verdict beside it. */
+const VERDICT_CAUTION_CODES = new Set(["dead-head", "unstable-crossing", "near-curve-end", "system-curve-jump"]);
 
 /** A curve set on the system: adjusted (speed/trim, solved to the duty when asked), combined, solved, with figures. */
 export function evaluateCandidate(
@@ -308,7 +317,9 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
-  warnings.push(...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx));
+  const edgeAndStart = [...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx)];
+  warnings.push(...edgeAndStart);
+  const cautions = [...new Set([...wText(op.warnings.filter((w) => VERDICT_CAUTION_CODES.has(w.code))), ...edgeAndStart])];
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
   const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
@@ -347,6 +358,7 @@ export function evaluateCandidate(
     viscosityB: visc.b,
     viscosity: viscositySummary(visc),
     warnings: [...new Set(warnings)],
+    cautions,
   };
 }
 

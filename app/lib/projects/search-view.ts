@@ -23,6 +23,8 @@ export type SearchResultIn = Pick<
   verdict: unknown;
   /** NPSH over the design point and the band's corners (the lowest deciding), or null without a verdict. */
   npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string; unjudged?: { at: string; why: string }[] } | null;
+  /** The cautions that qualify the verdict (evaluateCandidate's `cautions`); absent: none. */
+  cautions?: string[];
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
   /** The operating point the figures are at (m³/s, m), null without one. */
@@ -67,6 +69,7 @@ export type SearchResultView = {
   };
   atTypedDuty: SearchResultIn["atTypedDuty"];
   reason: string;
+  /** The cautions that qualify the verdict (as the candidates table's: dead-head, unstable crossings, band edges', a pump in parallel or series that cannot start), then the search's own at the typed duty; each once. */
   warnings: string[];
 };
 
@@ -94,6 +97,6 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     },
     atTypedDuty: r.atTypedDuty,
     reason: r.reason,
-    warnings: r.warnings.map((w) => w.message),
+    warnings: [...new Set([...(r.cautions ?? []), ...r.warnings.map((w) => w.message)])],
   };
 }

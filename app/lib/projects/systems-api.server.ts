@@ -4,7 +4,7 @@
 import type { Viewer } from "../libraries";
 import { systemWorkbench } from "./projects.server";
 import { SEARCH_SHOWN, searchForSystem, type SearchFilters } from "./search.server";
-import { workbenchView } from "./workbench-view";
+import { workbenchApiView, workbenchView } from "./workbench-view";
 import { searchResultView } from "./search-view";
 
 export const SI_UNITS = { flow: "m3/s", head: "m", pressure: "Pa", power: "W", diameter: "m", length: "m", speed: "rpm", efficiency: "fraction" } as const;
@@ -12,7 +12,7 @@ export const SI_UNITS = { flow: "m3/s", head: "m", pressure: "Pa", power: "W", d
 /** { system, input, evaluation, candidates } — the same view as POST …/preview, from the stored inputs. */
 export async function systemReadView(viewer: Viewer, systemId: number) {
   const bench = await systemWorkbench(viewer, systemId);
-  const view = workbenchView(bench);
+  const view = workbenchApiView(workbenchView(bench));
   return {
     units: SI_UNITS,
     system: { id: bench.system.id, name: bench.system.name, projectId: bench.system.projectId, projectName: bench.system.projectName },

@@ -2,6 +2,7 @@
 import type { CandidateEvaluation, SystemEvaluation, Adjustment } from "./hydraulics";
 import type { CandidateEnergy } from "./energy";
 import type { DocProblem } from "./stored-doc";
+import { verdictNpshNote } from "./verdict-npsh";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
 /**
@@ -32,5 +33,33 @@ export function workbenchView(bench: {
     flowMax: bench.flowMax,
     candidates: bench.candidates.map((c) => ({ id: c.id, curveSetId: c.curveSetId, label: c.label, library: c.library, adjustment: c.adjustment, result: c.result, error: c.error, energy: c.energy ?? null })),
     needsReview: bench.needsReview.map((c) => ({ id: c.id, curveSetId: c.curveSetId, label: c.label, library: c.library, count: c.count, problems: c.problems, form: c.form })),
+  };
+}
+
+/** NPSHa / NPSHr where NPSHa ≤ 0 means nothing (read by NPSHa): null there, as the selection CSV leaves it blank. */
+const ratioWhere = (ratio: number | null, available: number | null | undefined) => (available != null && available <= 0 ? null : ratio);
+
+/**
+ * The read API's view (GET /api/v1/systems/:id, POST …/preview): the workbench view with each candidate's `result.verdictNpsh`,
+ * what NPSH over the band says against the verdict on its line (verdict-npsh.ts, as the search API and every page showing the
+ * verdict), and no NPSH margin ratio where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
+ */
+export function workbenchApiView(view: WorkbenchView) {
+  return {
+    ...view,
+    candidates: view.candidates.map((c) => {
+      const r = c.result;
+      if (!r) return { ...c, result: null };
+      return {
+        ...c,
+        result: {
+          ...r,
+          verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
+          figures: r.figures ? { ...r.figures, npshMarginRatio: ratioWhere(r.figures.npshMarginRatio, r.figures.npshAvailable) } : null,
+          band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioWhere(b.npshMarginRatio, b.npshAvailable) })),
+          npsh: { ...r.npsh, ...(r.npsh.judgedAt ? { judgedAt: r.npsh.judgedAt.map((p) => ({ ...p, marginRatio: ratioWhere(p.marginRatio, p.available) })) } : {}) },
+        },
+      };
+    }),
   };
 }
