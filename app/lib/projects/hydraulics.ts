@@ -110,7 +110,10 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
       kinematicViscosity: fluid.kinematicViscosity,
     });
     const guide = VELOCITY_GUIDE[r.side];
-    const warnings = wText(res.warnings);
+    // One message per cause: where the system's warnings carry this run's transition band (it names the duty flow and
+    // its Re, systemCurve's `duty`), the one-flow transition warning at the duty is the same cause said twice: left out.
+    const band = preparedRun && curve.warnings.some((w) => w.code === "transition-flow" && w.message.startsWith(`${preparedRun.name}: `) && w.message.includes(`D = ${qt("diameter", preparedRun.diameter)}`));
+    const warnings = wText(band ? res.warnings.filter((w) => w.code !== "transition-flow") : res.warnings);
     if (res.velocity > guide.max) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.max).join(" is above the usual ")} for a ${r.side} line.`);
     if (res.velocity < guide.min) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.min).join(" is below the usual ")} for a ${r.side} line.`);
     const fittings = r.fittings.filter((f) => f.count > 0).length;
