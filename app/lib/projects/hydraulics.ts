@@ -34,7 +34,8 @@ export * from "./candidate-input";
 export * from "./duty-check";
 import { dutyCheckOf, noHeadClause, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
-import { arrangementStartWarnings } from "./arrangement-start";
+import { arrangementStartWarnings, parallelStaging } from "./arrangement-start";
+import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
@@ -186,6 +187,11 @@ export type CandidateEvaluation = {
   npsh: NpshJudgement;
   /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
   verdict: Verdict | null;
+  /**
+   * Pumps in parallel started one after another: the band's edges where those running cannot let the next open its check
+   * valve and deliver less than the verdict accepts (verdict-start.ts); [] when none. Absent in selections frozen before.
+   */
+  stagedStart?: StagedShortfall[];
   /** ANSI/HI 9.6.7 parameter B of a custom liquid at one pump's water BEP (dimensionless); null for water or when unknown. */
   viscosityB: number | null;
   /**
@@ -311,7 +317,8 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
-  warnings.push(...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx));
+  const staged = parallelStaging(ctx);
+  warnings.push(...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx, staged));
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
   const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
@@ -347,6 +354,7 @@ export function evaluateCandidate(
     band,
     npsh,
     verdict,
+    stagedStart: stagedShortfalls(staged, input.duty?.flow, (input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus),
     viscosityB: visc.b,
     viscosity: viscositySummary(visc),
     warnings: [...new Set(warnings)],
