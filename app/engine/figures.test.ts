@@ -186,3 +186,19 @@ describe("NPSHa at or below zero with no NPSHr on the curve", () => {
     expect(above.warnings.map((w) => w.code)).toContain("npsh-unknown");
   });
 });
+
+describe("NPSHa at or below zero with NPSHr on the curve: read by NPSHa, as the band's corners are", () => {
+  // NPSHa = (p_s − p_v)/(ρg) + z_s − h_loss (common practice); NPSHa ≤ 0 means the liquid boils at the inlet whatever the
+  // pump, so a ratio to NPSHr or "below NPSHr" says nothing (our rule, decision "npshenergy").
+  const withNpshr = createPumpCurve({ points: samplePoints() });
+  const at = (z: number) => operatingFigures({ curve: withNpshr, flow: 40 * M3H, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: z, suctionLoss: 0 } });
+  const said = (z: number) => inSI(at(z).warnings.find((w) => w.code === "npsh-cavitation")!.message);
+  it("NPSHa ≤ 0: 'not above zero … whatever the pump's NPSHr', never 'below NPSHr'; flips to 'below NPSHr' just above zero (bisection)", () => {
+    let lo = -20, hi = 0; // NPSHa(lo) ≤ 0 < NPSHa(hi)
+    for (let i = 0; i < 200; i++) { const mid = (lo + hi) / 2; if (at(mid).npsh!.available > 0) hi = mid; else lo = mid; }
+    expect(at(lo).npsh!.required).not.toBeNull();
+    expect(said(lo)).toMatch(/^NPSHa -?0\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/); // old code: "… is below NPSHr … m: cavitation risk"
+    expect(said(lo - 0.2)).toMatch(/^NPSHa -0\.\d+ m is not above zero/);
+    expect(said(hi)).toMatch(/^NPSHa \S+ m is below NPSHr [\d.]+ m: cavitation risk$/); // NPSHa just above zero
+  });
+});

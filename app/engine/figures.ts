@@ -251,10 +251,11 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     if (available <= 0) status = "cavitation-risk";
     // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
     if (status === "cavitation-risk")
-      warnings.push({ code: "npsh-cavitation", message: required !== null
+      warnings.push({ code: "npsh-cavitation", message: available > 0 && required !== null
         ? `NPSHa ${qtExact("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
-        // No NPSHr here: NPSHa at or below zero decides alone (the liquid would boil at the inlet whatever the pump).
-        : `NPSHa ${qtExact("head", available, [0])} is not above zero: cavitation risk whatever the pump (the curve has no NPSHr at this flow)` });
+        // NPSHa at or below zero decides alone, NPSHr known or not (the liquid would boil at the inlet whatever the pump):
+        // read by NPSHa, as the band's corners are, never as "below NPSHr".
+        : `NPSHa ${qtExact("head", available, [0])} is not above zero: cavitation risk whatever the pump${required === null ? " (the curve has no NPSHr at this flow)" : "'s NPSHr"}` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${fmtNumExact(marginRatio, [1, requiredMargin], 2)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
     npsh = { available, required, marginRatio, requiredMargin, status };

@@ -180,7 +180,13 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
   });
   const h0 = clean[0].head;
 
-  if (drooping) warnings.push({ code: "drooping-curve", message: "head rises from shutoff before falling (drooping curve): more than one operating point is possible" });
+  // True beside every verdict (common practice, from memory: a pump starts against a closed check valve): a system may
+  // cross a drooping curve twice, but the point judged is the one reached from rest, and a system head above the
+  // curve's head at its first flow leaves no point at all (operatingPoint.ts `crossingFromRest`).
+  if (drooping) {
+    const first = clean[0].flow === 0 ? `its shut-off head ${qt("head", h0)}` : `its head at its first published flow, ${qt("head", h0)} (its shut-off head is not published)`;
+    warnings.push({ code: "drooping-curve", message: `head rises from ${first} before falling (drooping curve): a system curve may cross it twice, and the point judged is the one the pump reaches from rest, started against its closed check valve (the first crossing where its head falls below the system's); a system head above ${qt("head", h0)} there leaves it unable to start` });
+  }
   const opt = (name: string, v: number | undefined) => (v === undefined || v === null ? null : requirePositive(name, v));
   const powerDensity = requirePositive("powerDensity", input.powerDensity ?? 1000);
   const curve: PumpCurve = {

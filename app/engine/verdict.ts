@@ -278,7 +278,7 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   const missing = input.edges.filter((e) => e.flow === null || e.head === null);
   if (missing.length) {
     return { status: "no-operating-point", edge: missing[0].name,
-      rule: "no-operating-point: the pump curve must cross the system curve at every edge of the band",
+      rule: "no-operating-point: at every edge of the band the pump must reach an operating point from rest — started against a closed check valve, its head at the curve's first flow (the shut-off head) not below the system's there, it settles at the first crossing where its head falls below the system's; crossings it never reaches from rest do not count",
       reasons: missing.map((e) => `At ${e.name}: ${e.noPointReason ?? "the pump curve does not cross the system curve"}.`) };
   }
   if (qd === null) return null;

@@ -22,37 +22,68 @@ type StartCtx = {
 
 const DEAD_HEAD = "it runs at zero flow against its closed check valve (dead-head), churning and heating the liquid, below any minimum continuous flow";
 
+/** Pumps in parallel started one after another, at one edge of the band: the first that cannot open its check valve. */
+export type StagedStart = {
+  /** The band's edge ("most lift, aged pipe"). */
+  at: string;
+  /** Pumps running when the next is started (count), and the duty pumps (count). */
+  running: number;
+  of: number;
+  /** The head those running hold on the system, and one pump's shut-off head, m. */
+  heldHead: number;
+  shutoffHead: number;
+  /** The flow those running deliver, m³/s. */
+  flow: number;
+};
+
+function stagedAt(ctx: StartCtx, at: string, sys: (q: number) => number): StagedStart | null {
+  const shutoff = ctx.curve.shutoffHead;
+  if (shutoff === null) return null; // no published shut-off head: the start is not judged
+  for (let k = 1; k < ctx.n; k++) {
+    const op = solveOperatingPoint(k === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "parallel", duty: k }).curve, sys);
+    if (op.head == null || op.flow == null) return null; // k pumps do not run here: the band says why
+    if (op.head > shutoff) return { at, running: k, of: ctx.n, heldHead: op.head, shutoffHead: shutoff, flow: op.flow };
+  }
+  return null;
+}
+
+/**
+ * Pumps in parallel started one after another (duty/standby staging, common practice): at each edge of the band where
+ * one cannot open its check valve against those running, who runs, the head they hold and the flow they deliver.
+ * Empty for one pump, pumps in series, or a curve without a published shut-off head.
+ * @param ctx the system (SI), one pump's curve as set, the arrangement and its duty pumps (count)
+ */
+export function parallelStaging(ctx: StartCtx): StagedStart[] {
+  if (ctx.arrangement !== "parallel" || ctx.n < 2) return [];
+  return bandEdges(ctx.mode).flatMap(({ name, which }) => stagedAt(ctx, name, systemHeadFunction(ctx.prepared, which)) ?? []);
+}
+
 /**
  * The warnings, in words with the numbers, where a pump of the arrangement cannot deliver: in parallel, the first pump
  * that cannot open its check valve against those running; in series, the pumps left running when one stops.
  * @param ctx the system (SI), one pump's curve as set, the arrangement and its duty pumps (count)
+ * @param staged in parallel, the staged starts already judged (`parallelStaging`; heads m, flows m³/s)
  */
-export function arrangementStartWarnings(ctx: StartCtx): string[] {
+export function arrangementStartWarnings(ctx: StartCtx, staged: readonly StagedStart[] = parallelStaging(ctx)): string[] {
   const n = ctx.n;
-  const shutoff = ctx.curve.shutoffHead;
   if (ctx.arrangement === "single" || n < 2) return [];
   const out: string[] = [];
+  if (ctx.arrangement === "parallel") {
+    for (const s of staged) {
+      const [held, own] = qtPair("head", s.heldHead, s.shutoffHead);
+      out.push(`At ${s.at}, with ${s.running} pump${s.running > 1 ? "s" : ""} running in parallel the system holds ${held} at ${qt("flow", s.flow)}, above one pump's shut-off head ${own}: pump ${s.running + 1} of ${n}, started then, cannot open its check valve, so only ${s.running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running)`);
+    }
+    return out;
+  }
   for (const { name, which } of bandEdges(ctx.mode)) {
     const sys = systemHeadFunction(ctx.prepared, which);
-    if (ctx.arrangement === "parallel") {
-      if (shutoff === null) continue; // no published shut-off head: the start is not judged
-      for (let k = 1; k < n; k++) {
-        const op = solveOperatingPoint(k === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "parallel", duty: k }).curve, sys);
-        if (op.head == null || op.flow == null) break; // k pumps do not run here: the band says why
-        if (!(op.head > shutoff)) continue;
-        const [held, own] = qtPair("head", op.head, shutoff);
-        out.push(`At ${name}, with ${k} pump${k > 1 ? "s" : ""} running in parallel the system holds ${held} at ${qt("flow", op.flow)}, above one pump's shut-off head ${own}: pump ${k + 1} of ${n}, started then, cannot open its check valve, so only ${k} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running)`);
-        break;
-      }
-    } else {
-      const left = n - 1;
-      const rest = left === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "series", duty: left }).curve;
-      const op = solveOperatingPoint(rest, sys);
-      const head0 = rest.shutoffHead;
-      if (head0 === null || (op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0)) continue;
-      const [theirs, system] = qtPair("head", head0, sys(0));
-      out.push(`At ${name}, with one of the ${n} pumps in series stopped or tripped, the ${left === 1 ? "pump left running gives" : `${left} left running give`} ${theirs} at zero flow against the system's ${system}: no flow passes, and ${left === 1 ? DEAD_HEAD : DEAD_HEAD.replace("it runs against its", "they run against their")} — trip the rest with it (common practice: pumps in series need each other's head)`);
-    }
+    const left = n - 1;
+    const rest = left === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "series", duty: left }).curve;
+    const op = solveOperatingPoint(rest, sys);
+    const head0 = rest.shutoffHead;
+    if (head0 === null || (op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0)) continue;
+    const [theirs, system] = qtPair("head", head0, sys(0));
+    out.push(`At ${name}, with one of the ${n} pumps in series stopped or tripped, the ${left === 1 ? "pump left running gives" : `${left} left running give`} ${theirs} at zero flow against the system's ${system}: no flow passes, and ${left === 1 ? DEAD_HEAD : DEAD_HEAD.replace("it runs against its", "they run against their")} — trip the rest with it (common practice: pumps in series need each other's head)`);
   }
   return out;
 }

@@ -34,7 +34,8 @@ export * from "./candidate-input";
 export * from "./duty-check";
 import { dutyCheckOf, noHeadClause, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
-import { arrangementStartWarnings } from "./arrangement-start";
+import { arrangementStartWarnings, parallelStaging } from "./arrangement-start";
+import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
@@ -110,7 +111,10 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
       kinematicViscosity: fluid.kinematicViscosity,
     });
     const guide = VELOCITY_GUIDE[r.side];
-    const warnings = wText(res.warnings);
+    // One message per cause: where the system's warnings carry this run's transition band (it names the duty flow and
+    // its Re, systemCurve's `duty`), the one-flow transition warning at the duty is the same cause said twice: left out.
+    const band = preparedRun && curve.warnings.some((w) => w.code === "transition-flow" && w.message.startsWith(`${preparedRun.name}: `) && w.message.includes(`D = ${qt("diameter", preparedRun.diameter)}`));
+    const warnings = wText(band ? res.warnings.filter((w) => w.code !== "transition-flow") : res.warnings);
     if (res.velocity > guide.max) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.max).join(" is above the usual ")} for a ${r.side} line.`);
     if (res.velocity < guide.min) warnings.push(`Velocity ${qtPair("velocity", res.velocity, guide.min).join(" is below the usual ")} for a ${r.side} line.`);
     const fittings = r.fittings.filter((f) => f.count > 0).length;
@@ -183,6 +187,11 @@ export type CandidateEvaluation = {
   npsh: NpshJudgement;
   /** The verdict (engine rules, app/engine/verdict.ts); null only without a duty when nothing else is wrong. */
   verdict: Verdict | null;
+  /**
+   * Pumps in parallel started one after another: the band's edges where those running cannot let the next open its check
+   * valve and deliver less than the verdict accepts (verdict-start.ts); [] when none. Absent in selections frozen before.
+   */
+  stagedStart?: StagedShortfall[];
   /** ANSI/HI 9.6.7 parameter B of a custom liquid at one pump's water BEP (dimensionless); null for water or when unknown. */
   viscosityB: number | null;
   /**
@@ -317,7 +326,8 @@ export function evaluateCandidate(
   }
   const ctx = { mode: input.mode, prepared, base, curve, combined, arrangement: adj.arrangement, n, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, liquid: visc.status === "corrected" ? solver : null };
   const band = bandPoints(ctx);
-  const edgeAndStart = [...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx)];
+  const staged = parallelStaging(ctx);
+  const edgeAndStart = [...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx, staged)];
   warnings.push(...edgeAndStart);
   const cautions = [...new Set([...wText(op.warnings.filter((w) => VERDICT_CAUTION_CODES.has(w.code))), ...edgeAndStart])];
   const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
@@ -355,6 +365,7 @@ export function evaluateCandidate(
     band,
     npsh,
     verdict,
+    stagedStart: stagedShortfalls(staged, input.duty?.flow, (input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus),
     viscosityB: visc.b,
     viscosity: viscositySummary(visc),
     warnings: [...new Set(warnings)],

@@ -5,6 +5,7 @@ import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted,
 import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
 import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
+import { verdictStartNote } from "./verdict-start";
 import { inSI } from "~/engine/quantityText";
 
 const row = (xs: unknown[]) => xs;
@@ -61,6 +62,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("verdict", verdict?.status ?? (f.result.verdict === undefined ? "not judged (selected before verdicts existed)" : "no duty point set"), "");
   // What NPSH over the band says against the verdict (a cavitation risk or a low margin), as on the report's verdict line.
   add("verdict_npsh", (() => { const n = verdictNpshNote(verdict, f.result.npsh); return n ? inSI(n) : null; })(), "");
+  // What starting pumps in parallel one after another says against the verdict, as on the report's verdict line.
+  add("verdict_start", (() => { const n = verdictStartNote(verdict, f.result.stagedStart); return n ? inSI(n) : null; })(), "");
   add("verdict_rule", verdict?.rule, "");
   (verdict?.reasons ?? []).forEach((r, i) => add(`verdict_reason_${i + 1}`, r, ""));
   add("verdict_edge", verdict?.edge, "");

@@ -34,6 +34,28 @@ describe("A1: a drooping pump whose shut-off head is below the static head", () 
   });
 });
 
+describe("A1's texts beside its verdict: the rule and the drooping-curve warning say what is judged", () => {
+  const at = (low: number, high: number) => evaluateCandidate(sys({ staticLow: low, staticHigh: high, duty: { flow: 0.0095, head: 43 } }), set(A1), DEFAULT_ADJUSTMENT);
+  const drooping = (e: ReturnType<typeof at>) => txt(e.warnings).filter((w) => /drooping curve/.test(w));
+  it("41–42 m static: the rule names a point reached from rest, not a crossing (the curves do cross, out of reach)", () => {
+    const e = at(41, 42);
+    expect(e.allIntersections.length).toBeGreaterThan(0); // control: the curves cross
+    expect(e.verdict?.rule).not.toMatch(/must cross the system curve/); // old code: "no-operating-point: the pump curve must cross the system curve at every edge of the band"
+    expect(e.verdict?.rule).toMatch(/^no-operating-point: at every edge of the band the pump must reach an operating point from rest — started against a closed check valve/);
+  });
+  it("41–42 m static: one drooping-curve warning, true beside 'no operating point' — it names the 40 m shut-off head and that a static above it leaves the pump unable to start", () => {
+    const w = drooping(at(41, 42));
+    expect(w).toHaveLength(1);
+    expect(w[0]).not.toMatch(/more than one operating point is possible/); // old code: "…: more than one operating point is possible"
+    expect(w[0]).toBe("head rises from its shut-off head 40.0 m before falling (drooping curve): a system curve may cross it twice, and the point judged is the one the pump reaches from rest, started against its closed check valve (the first crossing where its head falls below the system's); a system head above 40.0 m there leaves it unable to start");
+  });
+  it("the flip: 39.5–39.9 m static starts at both edges; the same one warning stands beside its verdict", () => {
+    const e = at(39.5, 39.9);
+    expect(e.verdict?.status).not.toBe("no-operating-point");
+    expect(drooping(e)).toEqual(drooping(at(41, 42)));
+  });
+});
+
 describe("A3: band, verdict and motor check agree where the pump cannot start", () => {
   const curve = pts([[0, 40], [0.01, 42.5], [0.02, 43.5], [0.03, 42.5]]);
   const input = (low: number, high: number) => sys({ runs: [], staticLow: low, staticHigh: high, duty: { flow: 0.0095, head: 41 } });
