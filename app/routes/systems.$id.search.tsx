@@ -11,6 +11,7 @@ import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { verdictNpshNote } from "~/lib/projects/verdict-npsh";
+import { verdictStartNote } from "~/lib/projects/verdict-start";
 import { npshLeftOutText } from "~/components/search-npsh";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -97,6 +98,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       verdict: r.verdict,
       // What NPSH over the band says against the verdict, on its line (verdict-npsh.ts); tokens rendered by renderDeep.
       verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
+      // What starting pumps in parallel one after another says against it (verdict-start.ts), on the same line; the key only
+      // where there is a note (the search judges one pump, so none today): a row's data stays small.
+      ...startOf(r.verdict, r.stagedStart),
       // The cautions that qualify the verdict (dead-head, unstable crossings, band edges', start of a pump in parallel or series).
       cautions: r.cautions,
       already: already.has(r.curveSetId),
@@ -139,6 +143,12 @@ function readPicks(values: unknown[], field: "one" | "add") {
 }
 
 const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
+
+/** A row's staged-start note (verdict-start.ts `verdictStartNote`) under `verdictStart`, or nothing where it says nothing. */
+function startOf(verdict: { status: string } | null, staged: unknown): { verdictStart?: string } {
+  const note = verdictStartNote(verdict, staged);
+  return note ? { verdictStart: note } : {};
+}
 
 export default function Search({ actionData }: Route.ComponentProps) {
   const d = useLoaderData<typeof loader>();
@@ -262,7 +272,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>{r.how}</td>
                     <td className="max-w-xs">
-                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} />
+                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} startNote={r.verdictStart} />
                       {r.cautions.length ? (
                         <details className="text-xs text-duty-ink" data-testid={`search-cautions-${r.curveSetId}`}>
                           <summary>{r.cautions.length} caution{r.cautions.length === 1 ? "" : "s"}</summary>

@@ -5,6 +5,7 @@
 import type { Candidate } from "~/engine";
 import type { NpshJudgement } from "./candidate-judgement";
 import { verdictNpshNote } from "./verdict-npsh";
+import { verdictStartNote } from "./verdict-start";
 
 /** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
 export type SearchResultIn = Pick<
@@ -25,6 +26,8 @@ export type SearchResultIn = Pick<
   npsh: { status: string; marginRatio: number | null; at: string | null; available?: number | null; rule: string; unjudged?: { at: string; why: string }[] } | null;
   /** The cautions that qualify the verdict (evaluateCandidate's `cautions`); absent: none. */
   cautions?: string[];
+  /** Staged starts of pumps in parallel that leave the duty unmet (verdict-start.ts `StagedShortfall[]`); absent or []: none. */
+  stagedStart?: unknown;
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
   /** The operating point the figures are at (m³/s, m), null without one. */
@@ -50,6 +53,11 @@ export type SearchResultView = {
   verdict: unknown;
   /** What NPSH over the band says against the verdict, in words with its numbers ("but NPSHa … below NPSHr … at …: cavitation risk"), or null (verdict-npsh.ts). */
   verdictNpsh: string | null;
+  /**
+   * What starting pumps in parallel one after another says against the verdict, in words with its numbers ("but started one after
+   * another (duty/standby staging) the duty is not met: …"), or null (verdict-start.ts; the search judges one pump, so null there).
+   */
+  verdictStart: string | null;
   /**
    * NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule,
    * unjudged (the points the rule names that could not be judged, each { at, why }: any of them leaves the status "unknown") }, or null.
@@ -89,6 +97,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote },
     verdict: r.verdict ?? null,
     verdictNpsh: verdictNpshNote(r.verdict as { status: string } | null | undefined, r.npsh as NpshJudgement | null | undefined),
+    verdictStart: verdictStartNote(r.verdict as { status: string } | null | undefined, r.stagedStart),
     npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule, unjudged: r.npsh.unjudged ?? [] } : null,
     figures: {
       operatingPoint: r.operatingPoint,

@@ -12,6 +12,7 @@
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
+import type { StagedShortfall } from "./verdict-start";
 import { fmtNumExact, qt } from "~/engine/quantityText";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
@@ -164,8 +165,11 @@ export type JudgedSetting = {
   operatingPoint: { flow: number; head: number } | null;
   efficiency: number | null; shaftPower: number | null; bepRatio: number | null; inPor: boolean | null;
 };
-/** What the search keeps of a pump judged as offered on the band: its verdict, its NPSH over the band's corners, the cautions that qualify the verdict and what it judged. */
-type Judged = { verdict: Verdict; npsh: NpshJudgement | null; cautions: string[]; shown: JudgedSetting };
+/**
+ * What the search keeps of a pump judged as offered on the band: its verdict, its NPSH over the band's corners, the cautions that
+ * qualify the verdict, its staged starts that leave the duty unmet (verdict-start.ts; none for the one pump the search judges) and what it judged.
+ */
+type Judged = { verdict: Verdict; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting };
 type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Judged | null> };
 const verdictCache = new LRUCache<string, SystemWork>({ max: VERDICT_SYSTEMS_LIMIT });
 function workFor(inputJson: string, input: SystemInput): SystemWork {
@@ -262,7 +266,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // ranking ends, or, with the filter, SEARCH_POWER_JUDGED are judged.
   let outsideCatalogue = 0, overPower = 0, judgedCount = 0;
   const judgeAtMost = filters.maxPowerW ? SEARCH_POWER_JUDGED : SEARCH_EVALUATED;
-  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; shown: JudgedSetting | null }[] = [];
+  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting | null }[] = [];
   for (const g of groups.values()) {
     if (judgedCount - overPower >= SEARCH_EVALUATED || judgedCount >= judgeAtMost) break;
     judgedCount++;
@@ -274,7 +278,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
         const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
         const e = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) });
         const f = e.figures;
-        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
+        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [], shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
           efficiency: f?.efficiency ?? null, shaftPower: f?.shaftPower ?? null, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null } } : null;
       } catch {
         judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
@@ -291,7 +295,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
       outsideCatalogue++;
       if (!filters.allowBeyondCatalogue) continue;
     }
-    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], shown: judged?.shown ?? null });
+    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
   }
   const powerFilter = filters.maxPowerW ? powerFilterOutcome(filters.maxPowerW, judgedCount, overPower, groups.size, res) : null;
   // Pumps that meet the system rank first, then oversized, then those two with a cavitation risk somewhere on the
@@ -305,7 +309,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
-  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, shown }, j) => ({
+  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, stagedStart, shown }, j) => ({
     ...rows[first + j],
     ...shownRow(rows[first + j], shown, system.input.duty!),
     curveSetId: s.id,
@@ -322,6 +326,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     npsh,
     /** The cautions that qualify the verdict (dead-head, unstable crossings, band edges', a pump in parallel or series that cannot start), as the candidates table's. */
     cautions,
+    /** Pumps in parallel started one after another that leave the duty unmet (verdict-start.ts), as the candidate's result: [] here, one pump judged. */
+    stagedStart,
   }));
   return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, powerFilter, paging, message: null as string | null };
 }

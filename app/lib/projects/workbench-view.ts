@@ -3,6 +3,7 @@ import type { CandidateEvaluation, SystemEvaluation, Adjustment } from "./hydrau
 import type { CandidateEnergy } from "./energy";
 import type { DocProblem } from "./stored-doc";
 import { verdictNpshNote } from "./verdict-npsh";
+import { verdictStartNote } from "./verdict-start";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
 /**
@@ -42,7 +43,9 @@ const ratioWhere = (ratio: number | null, available: number | null | undefined) 
 /**
  * The read API's view (GET /api/v1/systems/:id, POST …/preview): the workbench view with each candidate's `result.verdictNpsh`,
  * what NPSH over the band says against the verdict on its line (verdict-npsh.ts, as the search API and every page showing the
- * verdict), and no NPSH margin ratio where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
+ * verdict), its `result.verdictStart`, what starting pumps in parallel one after another says against it on the same line
+ * (verdict-start.ts), with `result.stagedStart` (the numbers behind it, documented, [] where none), and no NPSH margin ratio
+ * where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
  */
 export function workbenchApiView(view: WorkbenchView) {
   return {
@@ -55,6 +58,8 @@ export function workbenchApiView(view: WorkbenchView) {
         result: {
           ...r,
           verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
+          verdictStart: verdictStartNote(r.verdict, r.stagedStart),
+          stagedStart: r.stagedStart ?? [],
           figures: r.figures ? { ...r.figures, npshMarginRatio: ratioWhere(r.figures.npshMarginRatio, r.figures.npshAvailable) } : null,
           band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioWhere(b.npshMarginRatio, b.npshAvailable) })),
           npsh: { ...r.npsh, ...(r.npsh.judgedAt ? { judgedAt: r.npsh.judgedAt.map((p) => ({ ...p, marginRatio: ratioWhere(p.marginRatio, p.available) })) } : {}) },
