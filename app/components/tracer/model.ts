@@ -114,9 +114,10 @@ export type ContourReading = {
   efficiency: XY[];
   /**
    * `toEnd`: from the last crossing to the curve's end, which lies inside the innermost contour; `fromStart`: from the curve's start, inside it,
-   * to the first crossing; `outside`: between two crossings of a level, outside its contour (the curve left it and comes back in; contours.ts).
+   * to the first crossing; `outside`: between two crossings of a level, outside its contour (the curve left it and comes back in; contours.ts);
+   * `fromTouch`/`toTouch`: that end of the span is a touch of the contour, not a crossing (Crossing `touch`).
    */
-  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; outside: boolean; midpoint: number }[];
+  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; outside: boolean; midpoint: number; fromTouch: boolean; toTouch: boolean }[];
   levels: number[];
 };
 
@@ -142,7 +143,7 @@ export function contourReading(s: TracerState, head: Curve, cals: Map<number, Ca
   const startInside = (level: number) => (along.length ? insideLevel(along[0], contours, level) : null);
   const gaps = contourGaps(xs, end, start, startInside).map((g) => ({
     from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, fromStart: g.fromStart === true,
-    outside: g.outside === true, midpoint: back((g.from + g.to) / 2),
+    outside: g.outside === true, midpoint: back((g.from + g.to) / 2), fromTouch: g.fromTouch === true, toTouch: g.toTouch === true,
   }));
   const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
   if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
@@ -217,7 +218,7 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     const bepMidpoint = inner.length > 1 ? { bepMidpoint: inner[0].fromStart ? null : inner[0].midpoint } : {};
     for (const g of r.gaps.filter((x) => x.innermost || x.outside)) {
       const span = { ...who, level: g.level, from: g.from, to: g.to, next: next(g.level), midpoint: g.midpoint };
-      if (g.outside) out.push({ ...span, valley: true, taken: false });
+      if (g.outside) out.push({ ...span, valley: true, ...(g.fromTouch ? { fromTouch: true } : {}), ...(g.toTouch ? { toTouch: true } : {}), taken: false });
       else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...bepMidpoint, taken: h.peakAtMidpoint === true });
     }
   }

@@ -269,3 +269,50 @@ describe("a curve that crosses contours of one level only, three times or more",
     });
   }
 });
+
+// A closed 74 % contour whose lowest vertex sits on the head curve at flow t (a triangle up to 60 m over t ± 5 m³/h): the
+// curve touches it there and stays below it, outside (construction: H'' < 0 and the triangle's sides climb 2.375 m per m³/h).
+const touching = (id: number, t: number): Curve => ({ ...box(id, 74, t - 5, t + 5), points: [px(t - 5, 60), px(t + 5, 60), px(t, headOf(t))] });
+
+describe("a curve that touches a contour without crossing it: the touch is no crossing", () => {
+  for (const taken of [false, true]) {
+    it(`touching a 74 % contour at 25 m³/h, then crossing another 74 % contour at 40 and 60 and the 70 % one at 90, box ${taken ? "ticked" : "unticked"}`, () => {
+      // 70 % over 10–90, the touched 74 % triangle at 25, a 74 % rectangle over 40–60 (construction): outside 74 % from the
+      // touch to 40 (a dip, unread), inside 40–60 (the one peak span); the old count flipped at 25 (inside 25–40, outside 40–60).
+      const s: TracerState = { ...state(0, 95, taken), curves: [head(0, 95, taken), box(2, 70, 10, 90), touching(3, 25), box(4, 74, 40, 60)] };
+      const { ps, texts, curve, eff } = readAll(s);
+      const spans = (f: (p: (typeof ps)[number]) => boolean) => ps.filter(f).map((p) => [p.from, p.to]);
+      expect(spans((p) => p.valley === true).flat().map((q, i) => near(q, [25, 40][i]))).toEqual([true, true]);
+      expect(spans((p) => !p.valley).flat().map((q, i) => near(q, [40, 60][i]))).toEqual([true, true]);
+      const valley = texts[ps.findIndex((p) => p.valley)];
+      expect(valley).toMatch(/outside the 74 % contour: it touches it at 25\.0 m³\/h without going in and comes back in at 40\.0 m³\/h/);
+      // The peak span's words are the engine's: unticked, the BEP outside 40–60; ticked, at its middle, 50 m³/h.
+      const text = texts[ps.findIndex((p) => !p.valley)];
+      const bep = curve.bep ? curve.bep.flow * 3600 : NaN;
+      if (taken) {
+        expect(num(text.match(/the middle of that span, ([\d.]+) m³\/h, is written at 74 % and taken as the best-efficiency point/))).toBeCloseTo(50, 1);
+        expect(near(bep, 50)).toBe(true);
+      } else {
+        expect(text).toMatch(/puts the best-efficiency point outside the contour/);
+        expect(bep > 40 && bep < 60).toBe(false);
+      }
+      // No row in the dip; before it the rows read up to 74 %, the touch's level, at most (old: the dip's middle, 32.5, at 74 %, ticked).
+      expect(eff.filter((r) => r.q > 25.05 && r.q < 39.95)).toEqual([]);
+      expect(eff.filter((r) => r.q <= 25.05).every((r) => r.e <= 0.74)).toBe(true);
+    });
+  }
+
+  for (const taken of [false, true]) {
+    it(`crossing the 70 % contour at 20 m³/h, touching a 74 % contour at 40 and ending at 60, box ${taken ? "ticked" : "unticked"}`, () => {
+      // The old count made 74 % crossed once: the curve "ended inside" it from 40 to 60 and, ticked, 50 m³/h was written at 74 %.
+      const s: TracerState = { ...state(0, 60, taken), curves: [head(0, 60, taken), box(2, 70, 20, 80), touching(3, 40)] };
+      const { ps, curve, eff } = readAll(s);
+      expect(ps).toEqual([]); // nothing unread inside a contour: the curve is never inside 74 %
+      // The CSV's efficiency rises from 70 % at the crossing towards 74 % at the touch and stops there, ticked or not (old, ticked:
+      // a row at 50 m³/h at 74 %); the engine reads none past it.
+      expect(eff.length).toBeGreaterThanOrEqual(2);
+      expect(eff.every((r, i) => r.q >= 20 - 0.05 && r.q <= 40 + 0.05 && r.e <= 0.74 && (i === 0 || r.e > eff[i - 1].e))).toBe(true);
+      expect(efficiencyAt(curve, 50 / 3600)).toBeNull();
+    });
+  }
+});

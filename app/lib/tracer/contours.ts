@@ -21,7 +21,11 @@
 import { cleanPoints, valueAt, type XY } from "./curves";
 
 export type Contour = { level: number; points: XY[]; closed: boolean };
-export type Crossing = { x: number; y: number; level: number };
+/**
+ * `touch`: the curve meets the level's contour there but stays on the same side (tangent, or grazing a vertex): a known
+ * efficiency (the level) that is no crossing, so inside and outside do not alternate there (`contourGaps`).
+ */
+export type Crossing = { x: number; y: number; level: number; touch?: true };
 
 /** Intersection of segments p1→p2 and q1→q2, or null. */
 function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
@@ -34,7 +38,38 @@ function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
   return { x: p1.x + t * rx, y: p1.y + t * ry };
 }
 
-/** Every crossing of the curve (a polyline in flow order) with the contours, in order of flow. */
+/** The polyline's y at flow x, straight between its points (the plane's segments are straight), or null outside it. */
+function lineAt(c: readonly XY[], x: number): number | null {
+  for (let i = 0; i + 1 < c.length; i++) {
+    if (x >= c[i].x && x <= c[i + 1].x) return c[i].y + ((x - c[i].x) / (c[i + 1].x - c[i].x)) * (c[i + 1].y - c[i].y);
+  }
+  return null;
+}
+
+/**
+ * The crossings that are touches (`touch`): where the level's contours are all closed (insideLevel), the curve's sides
+ * just before and after are read halfway to the neighbouring meeting with that level (or the curve's start or end),
+ * where no other meeting with it lies between; the same side both ways is a touch. A meeting at the curve's first or
+ * last flow, or with a level that has an open contour (no inside to tell), stays a crossing.
+ */
+function markTouches(c: readonly XY[], xs: readonly Crossing[], contours: readonly Contour[]): Crossing[] {
+  if (c.length < 2) return [...xs];
+  const x0 = c[0].x, x1 = c[c.length - 1].x;
+  return xs.map((p) => {
+    const same = xs.filter((q) => q.level === p.level);
+    const k = same.indexOf(p);
+    const before = ((k > 0 ? same[k - 1].x : x0) + p.x) / 2, after = (p.x + (k + 1 < same.length ? same[k + 1].x : x1)) / 2;
+    if (!(before < p.x && after > p.x)) return p;
+    const side = (x: number) => {
+      const y = lineAt(c, x);
+      return y === null ? null : insideLevel({ x, y }, contours, p.level);
+    };
+    const a = side(before), b = side(after);
+    return a !== null && a === b ? { ...p, touch: true as const } : p;
+  });
+}
+
+/** Every meeting of the curve (a polyline in flow order) with the contours, in order of flow: crossings, and touches marked `touch`. */
 export function crossings(curve: readonly XY[], contours: readonly Contour[]): Crossing[] {
   const c = cleanPoints(curve);
   const out: Crossing[] = [];
@@ -48,8 +83,9 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
     }
   }
   out.sort((a, b) => a.x - b.x);
-  // A contour passing through a shared vertex is found twice: keep one.
-  return out.filter((p, i) => i === 0 || !(p.level === out[i - 1].level && Math.abs(p.x - out[i - 1].x) < 1e-9 * (1 + Math.abs(p.x))));
+  // A contour passing through a shared vertex is found twice (a touch there too): keep one.
+  const once = out.filter((p, i) => i === 0 || !(p.level === out[i - 1].level && Math.abs(p.x - out[i - 1].x) < 1e-9 * (1 + Math.abs(p.x))));
+  return markTouches(c, once, contours);
 }
 
 /**
@@ -61,7 +97,11 @@ export function crossings(curve: readonly XY[], contours: readonly Contour[]): C
  * `fromStart` there or before its start). `outside`: between two crossings of a level the curve is outside
  * that level's contour (it left it and comes back in): the efficiency dips below the level there.
  */
-export type ContourGap = { from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true; outside?: true };
+export type ContourGap = {
+  from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true; outside?: true;
+  /** The span starts (`fromTouch`) or ends (`toTouch`) where the curve touches the level's contour without crossing it. */
+  fromTouch?: true; toTouch?: true;
+};
 
 /**
  * Whether a point lies inside the contours of one level (even–odd rule over its closed loops: two islands
@@ -83,7 +123,8 @@ export function insideLevel(p: XY, contours: readonly Contour[], level: number):
 
 /**
  * The spans between consecutive crossings (in order of flow) of the same level, each inside or `outside`
- * that level's contour: inside and outside alternate along the curve at each crossing of the level,
+ * that level's contour: inside and outside alternate along the curve at each crossing of the level, not at a
+ * touch (`touch`: the curve stays on its side; the touch still ends one span and starts the next),
  * starting from whether the curve's first point is inside (`startInside(level)`: the contour geometry,
  * insideLevel). Where that is not known (no `startInside`, or null: an open contour) the curve starts
  * outside every level but the highest, and inside that only as before (helper "tracerone"): its first
@@ -98,7 +139,7 @@ export function insideLevel(p: XY, contours: readonly Contour[], level: number):
 export function contourGaps(xs: readonly Crossing[], end?: number, start?: number, startInside?: (level: number) => boolean | null): ContourGap[] {
   const top = Math.max(...xs.map((p) => p.level));
   const first = xs[0], last = xs[xs.length - 1];
-  const topCount = xs.filter((p) => p.level === top).length;
+  const topCount = xs.filter((p) => p.level === top && !p.touch).length;
   const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
   const guessed = (level: number) =>
     level === top && topCount % 2 === 1 && xs.length >= 2 && first.level === top && !(last.level === top && past(end, last.x));
@@ -111,10 +152,13 @@ export function contourGaps(xs: readonly Crossing[], end?: number, start?: numbe
   const out: ContourGap[] = [];
   for (let i = 0; i < xs.length; i++) {
     const L = xs[i].level;
-    seen.set(L, (seen.get(L) ?? 0) + 1);
+    if (!xs[i].touch) seen.set(L, (seen.get(L) ?? 0) + 1);
     if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x) {
-      const inside = inAtStart(L) !== (seen.get(L)! % 2 === 1);
-      out.push({ from: xs[i].x, to: xs[i + 1].x, level: L, innermost: inside && L === top, ...(inside ? {} : { outside: true as const }) });
+      const inside = inAtStart(L) !== ((seen.get(L) ?? 0) % 2 === 1);
+      out.push({
+        from: xs[i].x, to: xs[i + 1].x, level: L, innermost: inside && L === top, ...(inside ? {} : { outside: true as const }),
+        ...(xs[i].touch ? { fromTouch: true as const } : {}), ...(xs[i + 1].touch ? { toTouch: true as const } : {}),
+      });
     }
   }
   if (last && last.level === top && inAtStart(top) !== (topCount % 2 === 1) && past(end, last.x)) {

@@ -2,7 +2,7 @@
 // middle the user took written as a row of its own, the words on the page and in the source line.
 // Invented curves and levels; expected values worked out by hand beside each check.
 import { describe, expect, it } from "vitest";
-import { contourGaps, insideLevel, tracedRows, type TracedSet } from "./index";
+import { contourGaps, crossings, insideLevel, tracedRows, type TracedSet } from "./index";
 import { peakBoxLabel, peakNote, peakWarning, type UnreadPeak } from "./peak";
 import { SOURCE_MAX, tracedSource } from "./sniff";
 
@@ -68,6 +68,25 @@ describe("inside and outside along a curve that crosses one level three times or
     expect(insideLevel({ x: 50, y: 5 }, [sq(20, 40), sq(60, 80)], 74)).toBe(false); // between the squares
     expect(insideLevel({ x: 25, y: 5 }, [sq(20, 40), { ...sq(60, 80), closed: false }], 74)).toBeNull();
     expect(insideLevel({ x: 25, y: 5 }, [sq(20, 40)], 70)).toBeNull(); // no contour of that level
+  });
+});
+
+describe("a curve that touches a contour without crossing it", () => {
+  // The line y = 5 over 0–100 (invented); a closed triangle of 74 % with its lowest vertex on it at 30 (above it elsewhere),
+  // a closed square of 74 % over 50–70 that it crosses at 50 and 70 (construction).
+  const curve = [{ x: 0, y: 5 }, { x: 100, y: 5 }];
+  const tri = { level: 74, closed: true, points: [{ x: 25, y: 9 }, { x: 35, y: 9 }, { x: 30, y: 5 }] };
+  const sq = { level: 74, closed: true, points: [{ x: 50, y: 0 }, { x: 70, y: 0 }, { x: 70, y: 10 }, { x: 50, y: 10 }] };
+  it("is marked a touch where the level's contours are closed, and the count goes on past it", () => {
+    const xs = crossings(curve, [tri, sq]);
+    expect(xs).toEqual([{ x: 30, y: 5, level: 74, touch: true }, { x: 50, y: 5, level: 74 }, { x: 70, y: 5, level: 74 }]);
+    // Outside from the touch to 50 (a dip), inside 50–70 (the peak); the old count flipped at 30 and swapped them.
+    expect(contourGaps(xs, 100, 0, () => false)).toEqual([
+      { from: 30, to: 50, level: 74, innermost: false, outside: true, fromTouch: true }, { from: 50, to: 70, level: 74, innermost: true },
+    ]);
+  });
+  it("stays a crossing where the level has an open contour (no inside to read the sides from)", () => {
+    expect(crossings(curve, [{ ...tri, closed: false }, sq]).some((p) => p.touch)).toBe(false);
   });
 });
 

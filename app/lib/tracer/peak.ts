@@ -51,6 +51,9 @@ export type UnreadPeak = {
   at?: number[];
   /** Between `from` and `to`, two crossings of `level`, the curve is outside that level's contour (it left it and comes back in): the efficiency dips below the level; no box. */
   valley?: boolean;
+  /** With `valley`: the curve touches the contour at `from` (`fromTouch`) or `to` (`toTouch`) without crossing it (tangent, or grazing a vertex). */
+  fromTouch?: boolean;
+  toTouch?: boolean;
   /** The curve crosses none of its panel's contours, whose levels these are: no efficiency from the chart; `level`, `from`, `to`, `midpoint` are NaN; no box. */
   uncrossed?: number[];
   /**
@@ -227,8 +230,9 @@ function valleyWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const level = `${typed(p.level)} %`;
   return (
-    `${p.curve} (${keyText(p)}): the efficiency dips and is not traced. From ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u} the curve is outside the ${level} contour: it leaves it at ${fmtNum(p.from)} ${u} ` +
-    `and comes back in at ${fmtNum(p.to)} ${u}, so the contours say only that the efficiency there is below ${level}, not how far. It is left blank: the engine reads it across the blank rows ` +
+    `${p.curve} (${keyText(p)}): the efficiency dips and is not traced. From ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u} the curve is outside the ${level} contour: ` +
+    `${p.fromTouch ? `it touches it at ${fmtNum(p.from)} ${u} without going in` : `it leaves it at ${fmtNum(p.from)} ${u}`} ` +
+    `and ${p.toTouch ? `touches it at ${fmtNum(p.to)} ${u} without going in` : `comes back in at ${fmtNum(p.to)} ${u}`}, so the contours say only that the efficiency there is below ${level}, not how far. It is left blank: the engine reads it across the blank rows ` +
     `from the rows with efficiency either side, between their values, so it reads the dip too high (efficiency overstated, shaft power understated) and puts no best-efficiency point in it. ` +
     `Trace the lower contours the curve crosses there, or its efficiency curve on an efficiency panel.`
   );
