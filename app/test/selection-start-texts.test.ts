@@ -7,20 +7,18 @@
 // 41.9 m peak); heads and flows quoted are read off it.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createLibrary, listModels, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, getSelection, selectCandidate } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { viewerOfUser } from "~/lib/projects/test-kit";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import { makeMember, type TestMember } from "./harness";
+import { importDroopPump } from "./droop-pump";
 import { csvFigures, figureCell, selectionPages, textOf } from "./selection-pages";
 
 afterAll(() => closeDb());
 
-// flow m³/h, head m, efficiency % (invented; rises 4.75 % from its 40 m shut-off, within the importer's 5 % rise allowance)
-const ROWS = [[0, 40, 0], [18, 41.5, 45], [36, 41.9, 68], [54, 40.8, 74], [72, 37, 70], [90, 30, 58]];
-const DROOP_CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct", ...ROWS.map(([q, h, e]) => `Droop 80,end-suction,DN80,2900,200,${q},${h},${e}`)].join("\n");
 const M3H = 1 / 3600;
 
 let m: TestMember;
@@ -30,9 +28,7 @@ let setId = 0;
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const lib = await createLibrary(v, { name: "Drooping pumps", description: "" });
-  await importCsvText(v, lib, DROOP_CSV, "droop.csv");
-  setId = (await listModels(v, lib))[0].curves[0].id;
+  setId = await importDroopPump(v); // droop-pump.ts: 40 m shut-off, 41.9 m peak (invented)
   project = await createProject(v, { name: "Start texts", site: "", description: "" });
 });
 

@@ -12,23 +12,21 @@ import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { createLibrary, listModels, type Viewer } from "~/lib/libraries";
+import type { Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import { searchResultView } from "~/lib/projects/search-view";
-import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
+import { viewerOfUser } from "~/lib/projects/test-kit";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { call, makeMember, type TestMember } from "./harness";
+import { DROOP_ROWS, importDroopPump } from "./droop-pump";
 
 afterAll(() => closeDb());
 
-// flow m³/h, head m, efficiency % (invented, as selection-start-texts.test.ts: rises 4.75 % from its 40 m shut-off)
-const ROWS = [[0, 40, 0], [18, 41.5, 45], [36, 41.9, 68], [54, 40.8, 74], [72, 37, 70], [90, 30, 58]];
-const DROOP_CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct", ...ROWS.map(([q, h, e]) => `Droop 80,end-suction,DN80,2900,200,${q},${h},${e}`)].join("\n");
 const M3H = 1 / 3600;
 const NOTE = "but started one after another (duty/standby staging) the duty is not met: at most lift, aged pipe pump 2 of 2 cannot open its check valve against the 41.2 m pump 1 holds (above its shut-off head 40.0 m), so only 1 delivers, 50.8 m³/h, below the duty 54.0 m³/h; the verdict assumes the 2 started together";
 
@@ -49,9 +47,7 @@ let flipId = 0;
 beforeAll(async () => {
   m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const lib = await createLibrary(v, { name: "Drooping pumps", description: "" });
-  await importCsvText(v, lib, DROOP_CSV, "droop.csv");
-  setId = (await listModels(v, lib))[0].curves[0].id;
+  setId = await importDroopPump(v); // droop-pump.ts: 40 m shut-off, 41.9 m peak (invented)
   project = await createProject(v, { name: "Start surfaces", site: "", description: "" });
   a1Id = await createSystem(v, project, "A1 two in parallel", A1());
   flipId = await createSystem(v, project, "Two in parallel, less lift", FLIP());
@@ -108,7 +104,7 @@ async function droopRow(id: number) {
 }
 /** The same pump evaluated as the search row's setting, two in parallel: its verdict and staged starts. */
 function inParallel(input: SystemInput, method: string) {
-  const e = evaluateCandidate(input, { points: ROWS.map(([q, h, eff]) => ({ flow: q * M3H, head: h, efficiency: eff / 100, power: null, npshr: null })), speed: 2900, impellerDiameter: 0.2 }, { ...PARALLEL, method: method === "direct" ? "none" : (method as Adjustment["method"]) });
+  const e = evaluateCandidate(input, { points: DROOP_ROWS.map(([q, h, eff]) => ({ flow: q * M3H, head: h, efficiency: eff / 100, power: null, npshr: null })), speed: 2900, impellerDiameter: 0.2 }, { ...PARALLEL, method: method === "direct" ? "none" : (method as Adjustment["method"]) });
   return { verdict: e.verdict, stagedStart: e.stagedStart };
 }
 
