@@ -4,6 +4,7 @@ import { db } from "@db/client.server";
 import { projects, selections, systems } from "@db/schema";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects";
+import { historyCsv, type CheckResult, type Readings } from "~/lib/fieldchecks";
 
 /** Points of H = h0 − k·Q (m, m³/s) from Q = 0 to qMax, with a flat 70 % efficiency hump. */
 export function linearPoints(h0 = 40, k = 1000, qMax = 0.03, n = 7) {
@@ -71,4 +72,18 @@ export function powerCheckFields(head: number, shaft: number | null, rho: number
   const m = POWER_KNOT.motorEfficiency;
   const power: Record<string, string> = shaft === null ? {} : { powerMode: "input", power: String(shaft / m / 1000), motorEfficiency: String(m * 100) };
   return fieldsForHead(head, rho, { flow: String(POWER_KNOT.flow), ...power, ...extra });
+}
+
+/** The history CSV of one check (notes blank, so no quoted cells): its header and its row, split on commas. */
+export function oneCheckCsv(readings: Readings, result: CheckResult): { header: string[]; row: string[] } {
+  const csv = historyCsv({
+    selection: { id: 1, title: "Fixture", projectName: "Project" },
+    checks: [{
+      id: 1, chainId: 1, version: 1, superseded: false, createdAt: "2026-12-03T09:00:00Z",
+      times: { takenAt: null, recordedAt: "2026-12-03T09:00:00Z", text: "recorded 2026-12-03 09:00 UTC", warnings: [] } as never,
+      byName: "A", byWorkspace: "W", verdict: result.verdict, grade: result.grade.id, notes: "", readable: true, result, readings,
+    }],
+  });
+  const lines = csv.trim().split("\r\n");
+  return { header: lines.at(-2)!.split(","), row: lines.at(-1)!.split(",") };
 }

@@ -8,8 +8,8 @@
 // H = 25 m; curve shaft power P_c = ρ·g₀·Q·H/η there, water at 20 °C through the engine (IAPWS-IF97).
 import { describe, expect, test } from "vitest";
 import { fluidAt, G0 } from "~/engine";
-import { fieldsForHead, frozenFixture, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
-import { deliveredSentence, evaluateCheck, historyCsv, parseCheckFields, powerGradeSentences, type CheckResult, type Readings } from "./index";
+import { fieldsForHead, frozenFixture, oneCheckCsv, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
+import { deliveredSentence, evaluateCheck, parseCheckFields, powerGradeSentences, type CheckResult, type Readings } from "./index";
 import { readStoredCheck } from "./stored-check";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
@@ -176,16 +176,7 @@ describe("the history CSV", () => {
 
 /** One check's CSV row (the last line), split on commas (no quoted cells in these rows: notes are blank). */
 function csvRow(readings: Readings, result: CheckResult): string[] {
-  const csv = historyCsv({
-    selection: { id: 1, title: "Fixture", projectName: "Project" },
-    checks: [{
-      id: 1, chainId: 1, version: 1, superseded: false, createdAt: "2026-12-03T09:00:00Z",
-      times: { takenAt: null, recordedAt: "2026-12-03T09:00:00Z", text: "recorded 2026-12-03 09:00 UTC", warnings: [] } as never,
-      byName: "A", byWorkspace: "W", verdict: result.verdict, grade: result.grade.id, notes: "", readable: true, result, readings,
-    }],
-  });
-  const lines = csv.trim().split("\r\n");
-  const header = lines.at(-2)!.split(",");
+  const { header, row } = oneCheckCsv(readings, result);
   expect(header.slice(-3)).toEqual(["power_accuracy", "power_limits_within_accuracy", "notes"]);
-  return lines.at(-1)!.split(",");
+  return row;
 }

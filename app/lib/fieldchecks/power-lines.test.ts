@@ -8,8 +8,8 @@
 // (app/test/fieldcheck-fixture.ts: H = 40 − 1000·Q, 70 % at Q = 0.015 m³/s, H = 25 m), water at 20 °C through the engine.
 import { describe, expect, test } from "vitest";
 import { fluidAt, G0 } from "~/engine";
-import { frozenFixture, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
-import { evaluateCheck, historyCsv, parseCheckFields, powerGradeSentences, powerGradeSummary, type CheckResult, type Readings } from "./index";
+import { frozenFixture, oneCheckCsv, POWER_KNOT, powerCheckFields } from "~/test/fieldcheck-fixture";
+import { evaluateCheck, parseCheckFields, powerGradeSentences, powerGradeSummary, type CheckResult, type Readings } from "./index";
 import { readStoredCheck } from "./stored-check";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
@@ -114,14 +114,6 @@ describe("an accuracy that is not a fraction in [0, 1) is refused, and never mak
 
 /** One cell of the check's CSV row (no quoted cells in these rows: notes are blank). */
 function csvCell(readings: Readings, result: CheckResult, name: string): string {
-  const csv = historyCsv({
-    selection: { id: 1, title: "Fixture", projectName: "Project" },
-    checks: [{
-      id: 1, chainId: 1, version: 1, superseded: false, createdAt: "2026-12-03T09:00:00Z",
-      times: { takenAt: null, recordedAt: "2026-12-03T09:00:00Z", text: "recorded 2026-12-03 09:00 UTC", warnings: [] } as never,
-      byName: "A", byWorkspace: "W", verdict: result.verdict, grade: result.grade.id, notes: "", readable: true, result, readings,
-    }],
-  });
-  const lines = csv.trim().split("\r\n");
-  return lines.at(-1)!.split(",")[lines.at(-2)!.split(",").indexOf(name)];
+  const { header, row } = oneCheckCsv(readings, result);
+  return row[header.indexOf(name)];
 }
