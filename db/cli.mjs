@@ -331,7 +331,7 @@ async function test() {
       );
     }
     await startService("relay", process.execPath, ["fixtures/proxy/round-robin.mjs", String(port), ...appPorts.map(String)], env, `${appUrl}/healthz`);
-    const code = await run(npmBin("playwright"), ["test", "-c", "e2e", ...(process.env.E2E_GREP ? ["-g", process.env.E2E_GREP] : [])], {
+    const code = await run(npmBin("playwright"), ["test", "-c", "e2e", ...(process.env.E2E_GREP ? ["-g", process.env.E2E_GREP] : []), ...(process.env.E2E_REPEAT ? ["--repeat-each", process.env.E2E_REPEAT] : [])], {
       ...env,
       BASE_URL: appUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: pwJson,

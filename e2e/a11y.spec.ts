@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { axeViolations, signIn } from "./helpers";
+import { axeViolations, signIn, watchNetwork } from "./helpers";
 
 // axe-core on the pages the journeys reach: no serious or critical violation.
 // Pages of the demo's own objects are reached by their links (a `link` step opens the first link on
@@ -39,13 +39,14 @@ for (const group of PAGES) {
   test(`accessibility: ${group.who ?? "visitor"} pages have no serious or critical axe violations`, async ({ page }) => {
     // Up to nine pages with axe on each: a hang guard per page, not a timing (busy machines are slow).
     test.setTimeout(30_000 * (group.paths.length + 1));
+    const network = watchNetwork(page);
     if (group.who) await signIn(page, group.who);
     const found: Record<string, unknown> = {};
     for (const step of group.paths) {
       const p = typeof step === "string" ? step : (await firstLink(page, step.link)) + (step.suffix ?? "");
       const res = await page.goto(p);
       expect(res?.status(), p).toBeLessThan(400);
-      await page.waitForLoadState("networkidle");
+      await network.quiet();
       const v = await axeViolations(page);
       if (v.length) found[p] = v;
     }
@@ -60,6 +61,7 @@ test.describe("field pages on a phone", () => {
 
   test("accessibility: field pages at 390×844 have no serious or critical axe violations; a refused check moves focus to the summary", async ({ page }) => {
     test.setTimeout(150_000);
+    const network = watchNetwork(page);
     await signIn(page, "contractor@lowmoor.example");
     const found: Record<string, unknown> = {};
     const check = async (label: string) => {
@@ -67,11 +69,11 @@ test.describe("field pages on a phone", () => {
       if (v.length) found[label] = v;
     };
     await page.goto("/field");
-    await page.waitForLoadState("networkidle");
+    await network.quiet();
     await check("/field");
     const selectionPath = await firstLink(page, /^\/field\/selections\/\d+$/);
     await page.goto(selectionPath);
-    await page.waitForLoadState("networkidle");
+    await network.quiet();
     await check(selectionPath);
 
     // Every number brings up the decimal keypad with an Enter key that moves on; targets are thumb-sized (WCAG 2.5.5: 44 px).
@@ -102,7 +104,7 @@ test.describe("field pages on a phone", () => {
     await page.goto("/field");
     const checkPath = await firstLink(page, /^\/field\/checks\/\d+$/);
     await page.goto(checkPath);
-    await page.waitForLoadState("networkidle");
+    await network.quiet();
     await check(checkPath);
     expect(found).toEqual({});
   });

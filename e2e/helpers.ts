@@ -64,3 +64,36 @@ export async function axeViolations(page: Page) {
   });
   return result.filter((v: { impact: string }) => v.impact === "serious" || v.impact === "critical");
 }
+
+/**
+ * Watches the page's requests from now on. `quiet()` waits until none has been in flight for `idleMs`
+ * (Playwright's "networkidle", but its failure names the requests still open and how long they have
+ * been, so a hang says where it is instead of only timing out).
+ */
+export function watchNetwork(page: Page) {
+  const open = new Map<object, { url: string; since: number }>();
+  let lastChange = Date.now();
+  page.on("request", (r) => {
+    open.set(r, { url: `${r.method()} ${r.url()}`, since: Date.now() });
+    lastChange = Date.now();
+  });
+  const done = (r: object) => {
+    if (open.delete(r)) lastChange = Date.now();
+  };
+  page.on("requestfinished", done);
+  page.on("requestfailed", done);
+  return {
+    async quiet(idleMs = 500, timeoutMs = 20_000) {
+      const t0 = Date.now();
+      for (;;) {
+        if (open.size === 0 && Date.now() - lastChange >= idleMs) return;
+        if (Date.now() - t0 > timeoutMs) {
+          const now = Date.now();
+          const list = [...open.values()].map((o) => `${o.url} (open ${now - o.since} ms)`);
+          throw new Error(`network not quiet after ${timeoutMs} ms; still open: ${list.join("; ") || "none (kept busy)"}`);
+        }
+        await page.waitForTimeout(100);
+      }
+    },
+  };
+}

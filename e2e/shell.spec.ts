@@ -1,7 +1,9 @@
 import { expect, test } from "@playwright/test";
+import { watchNetwork } from "./helpers";
 
 test("a visitor sees the Dutymark shell, and the page asks nothing of any host but 127.0.0.1", async ({ page, baseURL }) => {
   const offHost: string[] = [];
+  const network = watchNetwork(page);
   page.on("request", (req) => {
     const u = new URL(req.url());
     if (!["http:", "https:", "ws:", "wss:"].includes(u.protocol)) return; // data:, blob:
@@ -15,7 +17,7 @@ test("a visitor sees the Dutymark shell, and the page asks nothing of any host b
   // The font ships with the app.
   const font = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
   expect(font).toContain("Source Sans 3");
-  await page.waitForLoadState("networkidle");
+  await network.quiet();
   await page.screenshot({ path: "e2e/artifacts/shell.png", fullPage: true });
   expect(offHost, `requests off 127.0.0.1 from ${baseURL}`).toEqual([]);
 });
