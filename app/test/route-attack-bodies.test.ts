@@ -51,7 +51,7 @@ const BODIES: Body[] = [
   { name: "1 MB of text over its fields (each past any length limit), just under the body limit", refuse: true, headers: FORM, body: (f, ws) => urlencoded(each(f, "x".repeat(Math.floor((MiB - 200) / f.length) - 30), ws)) },
   { name: "a body of 2 MiB", refuse: true, headers: FORM, body: (f, ws) => urlencoded(each(f, "x".repeat(Math.ceil((2 * MiB) / f.length)), ws)) },
   { name: "invalid UTF-8 in percent escapes", refuse: true, headers: FORM, body: (f, ws) => [...f.map((k) => `${k}=%FF%FE%C3%28`), `pageWorkspaceId=${ws}`].join("&") },
-  { name: "invalid UTF-8 bytes in a multipart body", refuse: false, headers: { "content-type": "multipart/form-data; boundary=QQ" }, body: (f, ws) => multipart([...f.map((k): [string, Uint8Array] => [k, new Uint8Array([0xff, 0xfe, 0xc3, 0x28])]), ["pageWorkspaceId", new TextEncoder().encode(ws)]]) },
+  { name: "invalid UTF-8 bytes in a multipart body", refuse: true, headers: { "content-type": "multipart/form-data; boundary=QQ" }, body: (f, ws) => multipart([...f.map((k): [string, Uint8Array] => [k, new Uint8Array([0xff, 0xfe, 0xc3, 0x28])]), ["pageWorkspaceId", new TextEncoder().encode(ws)]]) },
   { name: "a JSON object posted to it", refuse: true, headers: JSON_TYPE, body: (f, ws) => JSON.stringify(Object.fromEntries(each(f, "1", ws))) },
   ...["\"x\"", "42", "null", "true", "[]", "[{}]"].map((j): Body => ({ name: `JSON that is not an object: ${j}`, refuse: true, headers: JSON_TYPE, body: () => j })),
   { name: "JSON with prototype keys", refuse: false, headers: JSON_TYPE, body: () => '{"__proto__":{"polluted":1},"constructor":{"prototype":{"polluted":1}},"input":{"__proto__":{"polluted":1}}}' },

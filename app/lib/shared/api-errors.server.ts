@@ -13,7 +13,7 @@ export function asProblem(e: unknown, units: UnitChoice = SI_UNITS): Response {
   if (e instanceof Response) return e;
   const d = e as { type?: string; data?: unknown; init?: { status?: number } | null };
   if (d?.type === "DataWithResponseInit" && d.init?.status) {
-    const { detail, ...members } = typeof d.data === "string" ? { detail: d.data } : detailed(d.data) ? d.data : { detail: undefined };
+    const { detail, ...members } = typeof d.data === "string" ? { detail: d.data } : detailed(d.data) ? d.data : { detail: formMessage(d.data) };
     if (d.init.status === 404) return notFound(detail);
     if (d.init.status === 403) return forbidden(detail);
     return problem(renderDeep({ title: TITLES[d.init.status] ?? "Request refused", status: d.init.status, detail, ...members }, units));
@@ -22,6 +22,11 @@ export function asProblem(e: unknown, units: UnitChoice = SI_UNITS): Response {
 }
 
 const detailed = (x: unknown): x is { detail: string } & Record<string, unknown> => !!x && typeof x === "object" && typeof (x as { detail?: unknown }).detail === "string";
+/** A form reader's refusal (`{ errors: { _form } }`, readFormSafe) thrown inside an API action: its message is the detail. */
+const formMessage = (x: unknown): string | undefined => {
+  const m = (x as { errors?: { _form?: unknown } } | null)?.errors?._form;
+  return typeof m === "string" ? m : undefined;
+};
 
 /**
  * An API read of one record by its path `:id`: a 400 naming `what` when the id is not a number, else

@@ -48,11 +48,48 @@ describe("readFormSafe, urlencoded", () => {
     const req = new Request("http://x.test/", { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded; charset=utf-8" }, body: new Uint8Array([0x6e, 0x3d, 0xff, 0xfe]) });
     expect((await refusal(readFormSafe(req)))?.status).toBe(400);
   });
-  test("multipart is read as before", async () => {
+});
+
+describe("readFormSafe, multipart (RFC 7578)", () => {
+  const enc = new TextEncoder();
+  const join = (chunks: Uint8Array[]) => {
+    const out = new Uint8Array(chunks.reduce((n, c) => n + c.byteLength, 0));
+    chunks.reduce((at, c) => (out.set(c, at), at + c.byteLength), 0);
+    return out;
+  };
+  /** A multipart body by hand: parts of [headers, content], as bytes; `lead` is written before the first boundary. */
+  const multipart = (parts: [Uint8Array, Uint8Array][], lead = "") =>
+    new Request("http://x.test/", {
+      method: "POST",
+      headers: { "content-type": "multipart/form-data; boundary=QQ" },
+      body: join([enc.encode(lead), ...parts.flatMap(([h, b]) => [enc.encode("--QQ\r\n"), h, enc.encode("\r\n\r\n"), b, enc.encode("\r\n")]), enc.encode("--QQ--\r\n")]),
+    });
+  const field = (name: string) => enc.encode(`Content-Disposition: form-data; name="${name}"`);
+  test("text fields and files read as the platform reads them (a browser's own FormData body)", async () => {
     const fd = new FormData();
-    fd.append("name", "Café");
+    fd.append("name", "Café €");
+    fd.append("file", new File([new Uint8Array([0xff, 0xfe, 0x00, 0x41])], "curve.csv", { type: "text/csv" }));
     const f = await readFormSafe(new Request("http://x.test/", { method: "POST", body: fd }));
-    expect(f.get("name")).toBe("Café");
+    expect(f.get("name")).toBe("Café €");
+    expect([...new Uint8Array(await (f.get("file") as File).arrayBuffer())]).toEqual([0xff, 0xfe, 0x00, 0x41]); // a file's bytes are its own, never judged as text
+  });
+  test("a typed U+FFFD (EF BF BD) in a text field is kept; CRLF before the first boundary is allowed", async () => {
+    expect((await readFormSafe(multipart([[field("name"), new Uint8Array([0xef, 0xbf, 0xbd])]], "\r\n"))).get("name")).toBe("\uFFFD");
+  });
+  for (const [what, parts] of [
+    ["a text field's bytes that are not UTF-8 (FF FE C3 28)", [[field("a"), enc.encode("ok")], [field("name"), new Uint8Array([0xff, 0xfe, 0xc3, 0x28])]]],
+    ["a truncated sequence (E2 82) at a field's end", [[field("name"), new Uint8Array([0x41, 0xe2, 0x82])]]],
+    ["a field name that is not UTF-8 (FF)", [[join([field("n"), new Uint8Array([0xff])]), enc.encode("1")]]],
+  ] as [string, [Uint8Array, Uint8Array][]][]) {
+    test(`${what}: 400 with the rule, not U+FFFD in its place`, async () => {
+      const r = await refusal(readFormSafe(multipart(parts)));
+      expect(r?.status).toBe(400);
+      expect(r?.message).toMatch(/not valid UTF-8/);
+    });
+  }
+  test("a body that is not multipart at all: 400, not a 500", async () => {
+    const r = await refusal(readFormSafe(new Request("http://x.test/", { method: "POST", headers: { "content-type": "multipart/form-data; boundary=QQ" }, body: "no parts here" })));
+    expect(r?.status).toBe(400);
   });
 });
 
