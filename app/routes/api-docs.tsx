@@ -184,6 +184,8 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           A read (<code>GET</code>) takes only the query parameters listed for it, each once (<code>method</code> of the
           systems search any number of times): any other, or one given twice, is a <strong>400</strong> naming it, never
           silently ignored — answers are always in SI units, so <code>?units=us</code> is refused rather than answered in SI.
+          The one exception is <code>_</code>, a cache-buster (<code>?_=1733230000000</code>): every read takes it, any
+          number of times, and ignores it.
         </p>
         <Code>{ERROR_EXAMPLE}</Code>
       </section>

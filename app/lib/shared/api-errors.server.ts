@@ -46,8 +46,12 @@ export async function answerById(raw: string | undefined, what: string, answer: 
  * An API read's query string against the parameters it takes (`one`: at most once each; `many`: any number of times):
  * a 400 problem naming the first parameter it does not take, or a single-valued one given more than once; else null.
  * Ignored, they would be answered as if not asked: `?units=us` in SI, `?Page=2` with the first page, `?page=1&page=3`
- * with one of them. Keys are matched as written (case matters).
+ * with one of them. Keys are matched as written (case matters). `_`, the usual cache-buster a client appends
+ * (`?_=1733230000000`), is taken by every read and ignored, as its sender means it (common practice).
  */
+/** The cache-busting parameter every API read takes and ignores. */
+export const CACHE_BUSTER = "_";
+
 export function queryProblem(url: URL | string, takes: { one?: readonly string[]; many?: readonly string[] } = {}): Response | null {
   const u = typeof url === "string" ? new URL(url) : url;
   const one = takes.one ?? [];
@@ -55,6 +59,7 @@ export function queryProblem(url: URL | string, takes: { one?: readonly string[]
   const all = [...one, ...many];
   const seen = new Set<string>();
   for (const key of u.searchParams.keys()) {
+    if (key === CACHE_BUSTER) continue;
     const name = JSON.stringify(key.slice(0, 40));
     if (!all.includes(key)) {
       const what = all.length ? `this address takes ${all.join(", ")}` : "this address takes no query parameters";

@@ -109,6 +109,11 @@ describe("queryProblem", () => {
     expect((await detail(queryProblem("http://x.test/a?x=1")))?.detail).toBe('Unknown query parameter "x": this address takes no query parameters. Answers are in SI units (see /api).');
     expect((await detail(queryProblem("http://x.test/a?Page=1", { one: ["page"] })))?.status).toBe(400); // keys as written
   });
+  test("the cache-buster _ is taken by every read, any number of times, and ignored (common practice: clients append ?_=<time>)", async () => {
+    expect(queryProblem("http://x.test/a?_=1733230000000", { one: ["page"] })).toBeNull();
+    expect(queryProblem("http://x.test/a?_=1&_=2")).toBeNull();
+    expect((await detail(queryProblem("http://x.test/a?__=1")))?.status).toBe(400); // only "_" itself
+  });
   test("a single-valued parameter twice: 400, even with the same value", async () => {
     expect((await detail(queryProblem("http://x.test/a?page=1&page=1", { one: ["page"] })))?.detail).toBe('The query parameter "page" is given more than once: give it once.');
   });
