@@ -95,17 +95,21 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
 }
 
 /**
- * Where a pump curve meets a system curve, both as points (linear between points), over the flows both cover: the point
- * the pump reaches from rest, by the engine's rule (`crossingFromRest`, as `solveOperatingPoint` decides) — none when its
- * head at the first flow both cover is below the system's (it cannot open its check valve, whatever crossings lie further
- * out), else the first crossing where its head falls below the system's; null when there is none. Used where only sampled
- * curves are at hand (stored field-check charts).
+ * Where a pump curve meets a system curve, both as points (linear between points): the point the pump reaches from rest, by
+ * the engine's rule (`crossingFromRest`, as `solveOperatingPoint` decides), judged from the pump curve's first flow as the
+ * engine judges it — none when its head there is below the system's (it cannot open its check valve, whatever crossings lie
+ * further out), else the first crossing where its head falls below the system's; null when there is none. Null as well
+ * where the samples cannot tell: the system's first sampled flow lies above the pump curve's first (its head at the start is
+ * not known; before, the start was judged at the first flow both cover, which marked a point on a pump that cannot start),
+ * or the pump's head is still above the system's at the last flow both cover (the engine may find a crossing further out).
+ * Used where only sampled curves are at hand (stored field-check charts).
  */
 export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
   const p = cleanPoints(pump);
   const s = cleanPoints(system);
   if (p.length < 2 || s.length < 2) return null;
-  const lo = Math.max(p[0].flow, s[0].flow);
+  const lo = p[0].flow; // the engine's start: the pump curve's first flow
+  if (s[0].flow > lo) return null; // the system's head there is not sampled: the start cannot be judged
   const hi = Math.min(p[p.length - 1].flow, s[s.length - 1].flow);
   if (!(hi > lo)) return null;
   const flows = Array.from(new Set([lo, hi, ...p.map((q) => q.flow), ...s.map((q) => q.flow)].filter((f) => f >= lo && f <= hi))).sort((a, b) => a - b);

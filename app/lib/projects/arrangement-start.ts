@@ -9,7 +9,7 @@
 // Judged at each edge of the band (candidate-judgement.ts bandEdges), each warning with its numbers.
 import { bandEdges } from "./candidate-judgement";
 import { combinePumps, solveOperatingPoint, systemHeadFunction, type PreparedSystem, type PumpCurve } from "~/engine";
-import { qt, qtPair } from "~/engine/quantityText";
+import { qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 type StartCtx = {
   mode: "open" | "closed-loop";
@@ -58,32 +58,46 @@ export function parallelStaging(ctx: StartCtx): StagedStart[] {
   return bandEdges(ctx.mode).flatMap(({ name, which }) => stagedAt(ctx, name, systemHeadFunction(ctx.prepared, which)) ?? []);
 }
 
+/** "a and b" / "a, b and c" (a list in words). */
+const listed = (xs: readonly string[]) => (xs.length < 2 ? xs.join("") : `${xs.slice(0, -1).join(", ")} and ${xs[xs.length - 1]}`);
+
 /**
  * The warnings, in words with the numbers, where a pump of the arrangement cannot deliver: in parallel, the first pump
- * that cannot open its check valve against those running; in series, the pumps left running when one stops.
+ * that cannot open its check valve against those running; in series, the pumps left running when one stops. Said once
+ * where both edges of the band fail alike (in parallel, with as many pumps running), naming each edge with its numbers
+ * (before, one near-identical line per edge).
  * @param ctx the system (SI), one pump's curve as set, the arrangement and its duty pumps (count)
  * @param staged in parallel, the staged starts already judged (`parallelStaging`; heads m, flows m³/s)
  */
 export function arrangementStartWarnings(ctx: StartCtx, staged: readonly StagedStart[] = parallelStaging(ctx)): string[] {
   const n = ctx.n;
   if (ctx.arrangement === "single" || n < 2) return [];
-  const out: string[] = [];
   if (ctx.arrangement === "parallel") {
-    for (const s of staged) {
-      const [held, own] = qtPair("head", s.heldHead, s.shutoffHead);
-      out.push(`At ${s.at}, with ${s.running} pump${s.running > 1 ? "s" : ""} running in parallel the system holds ${held} at ${qt("flow", s.flow)}, above one pump's shut-off head ${own}: pump ${s.running + 1} of ${n}, started then, cannot open its check valve, so only ${s.running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running)`);
-    }
-    return out;
+    // One line per count of pumps running when the next cannot start (the same at both edges: one line for both).
+    const groups = new Map<number, StagedStart[]>();
+    for (const s of staged) groups.set(s.running, [...(groups.get(s.running) ?? []), s]);
+    return [...groups.values()].map((g) => {
+      const { running, shutoffHead } = g[0];
+      const held = g.map((s) => `${qtExact("head", s.heldHead, [shutoffHead])} at ${qt("flow", s.flow)}`);
+      const own = qtLimit("head", shutoffHead, g.map((s) => s.heldHead)); // never read as equal to a held head beside "above"
+      const where = g.length === 1 ? `At ${g[0].at}, with` : `At both edges of the band, with`;
+      const holds = g.length === 1 ? held[0] : listed(g.map((s, i) => `${held[i]} (${s.at})`));
+      return `${where} ${running} pump${running > 1 ? "s" : ""} running in parallel the system holds ${holds}, above one pump's shut-off head ${own}: pump ${running + 1} of ${n}, started then, cannot open its check valve, so only ${running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running)`;
+    });
   }
-  for (const { name, which } of bandEdges(ctx.mode)) {
+  const left = n - 1;
+  const rest = left === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "series", duty: left }).curve;
+  const head0 = rest.shutoffHead;
+  if (head0 === null) return [];
+  const failing = bandEdges(ctx.mode).flatMap(({ name, which }) => {
     const sys = systemHeadFunction(ctx.prepared, which);
-    const left = n - 1;
-    const rest = left === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "series", duty: left }).curve;
     const op = solveOperatingPoint(rest, sys);
-    const head0 = rest.shutoffHead;
-    if (head0 === null || (op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0)) continue;
-    const [theirs, system] = qtPair("head", head0, sys(0));
-    out.push(`At ${name}, with one of the ${n} pumps in series stopped or tripped, the ${left === 1 ? "pump left running gives" : `${left} left running give`} ${theirs} at zero flow against the system's ${system}: no flow passes, and ${left === 1 ? DEAD_HEAD : DEAD_HEAD.replace("it runs against its", "they run against their")} — trip the rest with it (common practice: pumps in series need each other's head)`);
-  }
-  return out;
+    return op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0 ? [] : [{ name, system: sys(0) }];
+  });
+  if (!failing.length) return [];
+  const theirs = qtExact("head", head0, failing.map((f) => f.system));
+  const against = failing.map((f) => qtLimit("head", f.system, [head0]));
+  const where = failing.length === 1 ? `At ${failing[0].name}, with` : "At both edges of the band, with";
+  const system = failing.length === 1 ? against[0] : listed(failing.map((f, i) => `${against[i]} (${f.name})`));
+  return [`${where} one of the ${n} pumps in series stopped or tripped, the ${left === 1 ? "pump left running gives" : `${left} left running give`} ${theirs} at zero flow against the system's ${system}: no flow passes, and ${left === 1 ? DEAD_HEAD : DEAD_HEAD.replace("it runs against its", "they run against their")} — trip the rest with it (common practice: pumps in series need each other's head)`];
 }
