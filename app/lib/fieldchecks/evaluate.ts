@@ -94,6 +94,9 @@ export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldChec
   return { verdict: "fail", within: null };
 }
 
+/** A head deviation from the curve (fraction) within which the head is on it: the tolerance cross's allowance for rounding. */
+const ON_CURVE = 1e-12;
+
 /** Usual causes, worded as things to check — never a diagnosis. */
 function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult }): string[] {
   const hints: string[] = [];
@@ -105,9 +108,10 @@ function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; sp
     hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
   if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
     hints.push(`The measured speed differs from the selection's speed (${fmtNumExact(r.speed.measured, [r.speed.design], 0)} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < 0)
+  // A head on the curve within the rounding the tolerance cross allows (1e-12, the engine's gradeCross) is neither below nor above it.
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE)
     hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > 0)
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > ON_CURVE)
     hints.push("The readings sit above the pump's curve: check the gauges' zero and calibration, the gauge elevations, the pipe diameters entered, and the flow meter's range and installation.");
   if (r.engine.verdict === "off-curve")
     hints.push("The measured head is not on the curve at all: check the readings first (gauge reference, units, elevations), then the speed and whether the valve is shut.");
