@@ -197,8 +197,11 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     verdict = "unknown";
     warnings.push(`No tolerance verdict: the measured speed (${Math.round(measured!)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${Math.round(rated!)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
-  if (within && verdict === "marginal")
-    warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty (flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross).`);
+  // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
+  const withinWords = within && verdict === "marginal"
+    ? `(flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
+    : null;
+  if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
   const q = engine.flow;
   const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;
@@ -236,9 +239,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
-      : powerWithin && engine.grades.find((g) => g.id === grade.id)?.cross?.pass
-        ? `${engine.message} as read; within the power reading's accuracy (±${fmtPctLimit(powerAccuracy!)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)`
-        : engine.message,
+      : marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null),
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
@@ -264,6 +265,19 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   };
   result.hints = hintsFor(result);
   return result;
+}
+
+/**
+ * The verdict's sentence for a check marginal as read: the engine's (missed as read), then what meets the grade within the
+ * readings' uncertainty (`withinWords`: the uncertainty and the point with their numbers, quantity tokens) and/or within the power reading's
+ * accuracy (`powerAccuracy`, a fraction); the engine's alone when neither.
+ */
+function marginalMessage(engineMessage: string, withinWords: string | null, powerAccuracy: number | null): string {
+  const parts = [
+    withinWords ? `the readings' uncertainty ${withinWords}; see the notes on the working)` : null,
+    powerAccuracy !== null ? `the power reading's accuracy (±${fmtPctLimit(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
+  ].filter((x): x is string => x !== null);
+  return parts.length ? `${engineMessage} as read; ${parts.map((x) => `within ${x}`).join("; and ")}` : engineMessage;
 }
 
 /** The sentence with the delivered duty point, quantities as tokens (rendered in the reader's units), for the e-mail. */
