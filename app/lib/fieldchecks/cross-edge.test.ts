@@ -67,3 +67,12 @@ describe("one arm met, the other off the curve", () => {
     expect(s.last).toBe("Met on the flow arm. The head arm cannot be read here: the published curve gives no head at the measured flow, so the grade is judged on the flow arm alone.");
   });
 });
+
+describe("no flow through the meter (0 L/s) at a head the curve reaches (20 m at 20 L/s)", () => {
+  test("the flow arm names the curve's flow at the measured head, never NaN: 0 against 20 L/s is −100 %", () => {
+    const s = check(frozenFixture(), 20, 0); // H = 40 − 1000·Q: 20 m at 0.02 m³/s; curve head at 0 L/s 40 m, 20/40 − 1 = −50 %
+    expect(s.r.verdict).toBe("fail");
+    // Was: "… the curve gives NaN L/s; …" (the curve's flow worked back from the deviation, 0 / (1 − 1)).
+    expect(s.flow).toBe("Flow arm: at the measured 20.000 m the curve gives 20.000 L/s; the measured 0.000 L/s is −100.0 % (allowed −8 % to +8 %) — not met, 92.0 points outside.");
+  });
+});

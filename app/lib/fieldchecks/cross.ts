@@ -35,7 +35,11 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
   const h = r.delivered.head;
   const dq = r.deviation.curveFlow;
   const head = arm("head", r.engine.curveHead, h, r.deviation.curveHead, r.grade.head);
-  const flow = arm("flow", dq !== null ? q / (1 + dq) : null, q, dq, r.grade.flow);
+  // The curve's flow at the measured head: as the engine judged it; in a result without its cross, worked back from the
+  // deviation — which cannot give it at a measured flow of zero (0 / (1 − 1)).
+  const judged = r.engine.grades?.find((g) => g.id === r.grade.id)?.cross?.flow.curveValue;
+  const flowAtHead = judged != null ? judged : dq !== null && 1 + dq !== 0 ? q / (1 + dq) : null;
+  const flow = arm("flow", flowAtHead, q, dq, r.grade.flow);
   const passedOn = head.pass && flow.pass ? "both" : head.pass ? "head" : flow.pass ? "flow" : "neither";
   return { grade: r.grade.id, head, flow, passedOn };
 }
