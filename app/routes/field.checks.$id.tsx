@@ -81,7 +81,7 @@ export default function FieldCheckRecord() {
         <p>
           <VerdictBadge verdict={d.check.verdict} grade={d.check.grade} large />
         </p>
-        <p className="text-sm">{r.message}.</p>
+        <p className="text-sm">{renderUnits(r.message, sys)}.</p>
         {cross ? (
           <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-cross">
             {crossSentences(cross, { flow: (v) => fmtFlow(sys, v), head: (v) => fmtHead(sys, v) }).map((t, i) => (

@@ -20,9 +20,12 @@ export type CrossArm = {
 
 export type CrossExplanation = { grade: string; head: CrossArm; flow: CrossArm; passedOn: "head" | "flow" | "both" | "neither" };
 
+/** Fraction points within which a reading counts as on the arm's edge (rounding of the readings' conversions): the engine's `gradeCross` allowance. */
+const EDGE = 1e-12;
+
 function arm(name: "head" | "flow", curveValue: number | null, measured: number, deviation: number | null, allowed: readonly [number, number]): CrossArm {
   const margin = deviation === null ? null : Math.min(deviation + allowed[0], allowed[1] - deviation);
-  return { arm: name, curveValue, measured, deviation, allowed, pass: margin !== null && margin >= -1e-12, margin };
+  return { arm: name, curveValue, measured, deviation, allowed, pass: margin !== null && margin >= -EDGE, margin };
 }
 
 /** Null without a flow meter (no verdict) or without a delivered flow. */
@@ -32,7 +35,11 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
   const h = r.delivered.head;
   const dq = r.deviation.curveFlow;
   const head = arm("head", r.engine.curveHead, h, r.deviation.curveHead, r.grade.head);
-  const flow = arm("flow", dq !== null ? q / (1 + dq) : null, q, dq, r.grade.flow);
+  // The curve's flow at the measured head: as the engine judged it; in a result without its cross, worked back from the
+  // deviation — which cannot give it at a measured flow of zero (0 / (1 − 1)).
+  const judged = r.engine.grades?.find((g) => g.id === r.grade.id)?.cross?.flow.curveValue;
+  const flowAtHead = judged != null ? judged : dq !== null && 1 + dq !== 0 ? q / (1 + dq) : null;
+  const flow = arm("flow", flowAtHead, q, dq, r.grade.flow);
   const passedOn = head.pass && flow.pass ? "both" : head.pass ? "head" : flow.pass ? "flow" : "neither";
   return { grade: r.grade.id, head, flow, passedOn };
 }
@@ -50,11 +57,23 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: (v: number) => 
     const at = a.arm === "head" ? `at the measured ${fmt.flow(x.flow.measured)} the curve gives ${a.curveValue !== null ? fmt.head(a.curveValue) : "no head"}` : `at the measured ${fmt.head(x.head.measured)} the curve gives ${a.curveValue !== null ? fmt.flow(a.curveValue) : "no flow"}`;
     const meas = a.arm === "head" ? fmt.head(a.measured) : fmt.flow(a.measured);
     if (a.deviation === null || a.margin === null) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at} — not met (off the curve).`;
+    // On the edge within the rounding allowance: met, and said with the limit's own number (never "met, … outside").
+    if (a.pass && Math.abs(a.margin) <= EDGE) {
+      const upper = a.allowed[1] - a.deviation <= a.deviation + a.allowed[0];
+      const limit = upper ? a.allowed[1] : a.allowed[0];
+      const edge = limit === 0 ? "0 %" : `${upper ? "+" : "−"}${fmtPctLimit(limit)}`;
+      return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${edge} (allowed ${tol(a.allowed)}) — met, at the limit (the allowance includes its edge).`;
+    }
     const by = `${fmtPctExact(Math.abs(a.margin)).replace(" %", "")} points ${a.margin >= 0 ? "inside" : "outside"}`;
     return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${pc(a.deviation, a.allowed)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
   };
   out.push(line(x.head), line(x.flow));
-  if (x.passedOn === "head") out.push("Met on the head arm. The flow arm's larger percentage is not a contradiction: where the curve is flat, a small head difference is a large flow difference.");
+  // The other arm off the curve has no percentage to compare: it cannot be read, and the grade rests on the arm met.
+  if (x.passedOn === "head" && x.flow.deviation === null)
+    out.push("Met on the head arm. The flow arm cannot be read here: the curve gives no flow above zero at the measured head, so the grade is judged on the head arm alone.");
+  else if (x.passedOn === "flow" && x.head.deviation === null)
+    out.push("Met on the flow arm. The head arm cannot be read here: the published curve gives no head at the measured flow, so the grade is judged on the flow arm alone.");
+  else if (x.passedOn === "head") out.push("Met on the head arm. The flow arm's larger percentage is not a contradiction: where the curve is flat, a small head difference is a large flow difference.");
   else if (x.passedOn === "flow") out.push("Met on the flow arm. Where the curve is steep, a small flow difference is a large head difference, so the head arm can miss while the flow arm is met.");
   else if (x.passedOn === "both") out.push("Met on both arms.");
   else out.push("Neither arm is met as read.");

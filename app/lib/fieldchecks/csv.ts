@@ -3,7 +3,7 @@
 import { toCsv } from "../shared/csv";
 import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
-import { powerGradeState } from "./power-grade";
+import { powerGradeState, powerLimitStates } from "./power-grade";
 import type { CheckResult } from "./result";
 import type { CheckTimes } from "./taken-at";
 
@@ -27,6 +27,7 @@ const VERDICT_RULE =
   "missed as read (power_dev_from_curve above power_allowed_above, or efficiency_dev_from_curve below −efficiency_allowed_below) but met within power_accuracy " +
   "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
+  "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
   "unknown: no flow meter, so flow and head are not judged.";
 
 /**
@@ -54,7 +55,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c",
       "power_limits", "shaft_power_w", "power_dev_from_curve", "power_allowed_above", "pump_efficiency", "efficiency_dev_from_curve", "efficiency_allowed_below",
-      "power_accuracy", "power_limits_within_accuracy", "notes",
+      "power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes",
     ],
   ];
   for (const c of [...h.checks].reverse()) {
@@ -66,7 +67,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
         r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
-        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), ...accuracyColumns(c.readings, r), c.notes,
+        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), ...accuracyColumns(c.readings, r), ...limitColumns(r), c.notes,
     ]);
   }
   return toCsv(lines, { precision: 8 });
@@ -94,4 +95,15 @@ function accuracyColumns(readings: Readings, r: CheckResult): unknown[] {
   const a = readings.power.mode === "none" ? null : (readings.power.readingAccuracy ?? null);
   const state = r.powerGrade?.accuracy != null ? powerGradeState(r.powerGrade) : null;
   return [a, state === null ? null : state === "missed" ? "not met" : "met"];
+}
+
+/**
+ * Each limit on its own (power-grade.ts `powerLimitStates`), whatever the verdict: "met" (as read), "met within accuracy" (met at
+ * the lowest power within the reading's accuracy — also in a row that fails on the other limit or on flow and head), "not met";
+ * blank where that limit was not judged.
+ */
+function limitColumns(r: CheckResult): unknown[] {
+  const words = { met: "met", within: "met within accuracy", missed: "not met" } as const;
+  const s = powerLimitStates(r.powerGrade);
+  return [s.power && words[s.power], s.efficiency && words[s.efficiency]];
 }

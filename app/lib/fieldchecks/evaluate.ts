@@ -94,6 +94,9 @@ export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldChec
   return { verdict: "fail", within: null };
 }
 
+/** A head deviation from the curve (fraction) within which the head is on it: the tolerance cross's allowance for rounding. */
+const ON_CURVE = 1e-12;
+
 /** Usual causes, worded as things to check — never a diagnosis. */
 function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult }): string[] {
   const hints: string[] = [];
@@ -105,9 +108,10 @@ function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; sp
     hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
   if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
     hints.push(`The measured speed differs from the selection's speed (${fmtNumExact(r.speed.measured, [r.speed.design], 0)} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < 0)
+  // A head on the curve within the rounding the tolerance cross allows (1e-12, the engine's gradeCross) is neither below nor above it.
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE)
     hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > 0)
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > ON_CURVE)
     hints.push("The readings sit above the pump's curve: check the gauges' zero and calibration, the gauge elevations, the pipe diameters entered, and the flow meter's range and installation.");
   if (r.engine.verdict === "off-curve")
     hints.push("The measured head is not on the curve at all: check the readings first (gauge reference, units, elevations), then the speed and whether the valve is shut.");
@@ -193,8 +197,11 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     verdict = "unknown";
     warnings.push(`No tolerance verdict: the measured speed (${Math.round(measured!)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${Math.round(rated!)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
-  if (within && verdict === "marginal")
-    warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty (flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross).`);
+  // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
+  const withinWords = within && verdict === "marginal"
+    ? `(flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
+    : null;
+  if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
   const q = engine.flow;
   const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;
@@ -232,9 +239,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
-      : powerWithin && engine.grades.find((g) => g.id === grade.id)?.cross?.pass
-        ? `${engine.message} as read; within the power reading's accuracy (±${fmtPctLimit(powerAccuracy!)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)`
-        : engine.message,
+      : marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null),
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
@@ -260,6 +265,19 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   };
   result.hints = hintsFor(result);
   return result;
+}
+
+/**
+ * The verdict's sentence for a check marginal as read: the engine's (missed as read), then what meets the grade within the
+ * readings' uncertainty (`withinWords`: the uncertainty and the point with their numbers, quantity tokens) and/or within the power reading's
+ * accuracy (`powerAccuracy`, a fraction); the engine's alone when neither.
+ */
+function marginalMessage(engineMessage: string, withinWords: string | null, powerAccuracy: number | null): string {
+  const parts = [
+    withinWords ? `the readings' uncertainty ${withinWords}; see the notes on the working)` : null,
+    powerAccuracy !== null ? `the power reading's accuracy (±${fmtPctLimit(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
+  ].filter((x): x is string => x !== null);
+  return parts.length ? `${engineMessage} as read; ${parts.map((x) => `within ${x}`).join("; and ")}` : engineMessage;
 }
 
 /** The sentence with the delivered duty point, quantities as tokens (rendered in the reader's units), for the e-mail. */

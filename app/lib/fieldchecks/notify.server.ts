@@ -22,6 +22,14 @@ function whenSentences(times: CheckTimes): string {
   return [`${said}.`, ...times.warnings].join(" ");
 }
 
+/**
+ * Why a check with a flow meter has no tolerance verdict, as the check says it (evaluate.ts's "No tolerance verdict: …" note,
+ * with its rule and numbers: the measured speed outside the affinity range, or a liquid with no curve to hold the pump to).
+ */
+function whyNoVerdict(r: CheckResult): string {
+  return r.warnings.find((w) => w.startsWith("No tolerance verdict:")) ?? `No tolerance verdict: ${r.message} (the check says why).`;
+}
+
 export async function notifyEngineer(viewer: Viewer, sel: NoticeSelection, checkId: number, r: CheckResult, kind: "new" | "amended", times: CheckTimes) {
   const userId = sel.createdBy ?? sel.projectCreatedBy;
   if (!userId) return null;
@@ -44,7 +52,7 @@ export async function notifyEngineer(viewer: Viewer, sel: NoticeSelection, check
       `${oneLine(checkedBy)} recorded a field check on the selection “${selection}” in the project “${project}”.`,
       r.engine.flowSource !== "measured"
         ? "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve."
-        : "No tolerance verdict: the measured speed is too far from the curve's to judge against it (the check says why).",
+        : oneLine(renderUnits(whyNoVerdict(r), units)),
       detail,
       "",
       `Open the field check: ${link}`,

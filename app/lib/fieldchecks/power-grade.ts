@@ -67,13 +67,25 @@ const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], t
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 
 /**
- * A limit's state, in agreement with the check's verdict: met as read; "within" — missed as read, but the check is
- * marginal because the limits are met at the lowest power within the reading's accuracy (`pg.within`), and this limit is
- * met there (`low`, from {@link lowOf}); or missed.
+ * One limit's own state, whatever the other limit and the check's verdict: met as read; "within" — missed as read but met
+ * at the lowest power within the reading's accuracy (`low`, from {@link lowOf}; a check that fails on the other limit, or on
+ * flow and head, still says so of this one); or missed. The check's verdict is the limits together (`powerGradeState`).
  */
-function limitState(x: GradeLimitCheck, pg: PowerGrade, low: GradeLimitCheck | null): "met" | "within" | "missed" {
+function limitState(x: GradeLimitCheck, low: GradeLimitCheck | null): "met" | "within" | "missed" {
   if (x.pass) return "met";
-  return pg.within && low?.pass === true ? "within" : "missed";
+  return low?.pass === true ? "within" : "missed";
+}
+
+/**
+ * Each limit's own state (met, met within the power reading's accuracy, missed), as {@link limitState}; null for a limit not
+ * judged (the grade sets none, or the curve gives no value), or all null when power and efficiency were not judged.
+ */
+export function powerLimitStates(pg: PowerGrade | null | undefined): { power: "met" | "within" | "missed" | null; efficiency: "met" | "within" | "missed" | null } {
+  const check = pg && pg.notJudged === null ? pg.check : null;
+  if (!pg || !check || check.pass === null) return { power: null, efficiency: null };
+  const low = lowOf(pg, check);
+  const one = (x: GradeLimitCheck | null, xLow: GradeLimitCheck | null) => (x && x.deviation !== null && x.pass !== null ? limitState(x, xLow) : null);
+  return { power: one(check.power, low?.power ?? null), efficiency: one(check.efficiency, low?.efficiency ?? null) };
 }
 
 /** The limit's value the reading is held to: (1 + tP) × the curve's power, or (1 − tη) × the curve's efficiency. */
@@ -101,7 +113,7 @@ function powerLine(p: GradeLimitCheck | null, basis: NonNullable<PowerGrade["bas
   if (p.curve === null || p.deviation === null || p.pass === null) return `Power: shaft ${qt("power", p.measured)} (${from}); the curve gives no power at the measured flow — not judged.`;
   const [measured, curve] = qtPair("power", p.measured, p.curve);
   const head = `Power: shaft ${measured} (${from}) vs curve ${curve}: ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed`;
-  const state = limitState(p, pg, low);
+  const state = limitState(p, low);
   return state === "within" ? `${head} as read — ${withinWords(p, low!, pg.accuracy!, "+")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
 
@@ -109,7 +121,7 @@ function efficiencyLine(e: GradeLimitCheck | null, pg: PowerGrade, low: GradeLim
   if (!e) return null;
   if (e.curve === null || e.deviation === null || e.pass === null) return `Efficiency: pump ${fmtPctExact(e.measured)} (ρ·g·Q·H / shaft power); the curve gives no efficiency at the measured flow — not judged.`;
   const head = `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${signed(e.deviation, e.allowed)} of it ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed`;
-  const state = limitState(e, pg, low);
+  const state = limitState(e, low);
   return state === "within" ? `${head} as read — ${withinWords(e, low!, pg.accuracy!, "−")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
 
@@ -188,10 +200,10 @@ export function powerGradeSummary(r: { grade: GradeWords; powerGrade?: PowerGrad
   if (!pg || pg.notJudged !== null || !pg.check) return powerGradeSentences(r)[0];
   const { power, efficiency } = pg.check;
   const low = lowOf(pg, pg.check);
-  // Each limit in agreement with the verdict: one missed as read but met within the accuracy (a marginal check) says so.
+  // Each limit on its own: one missed as read but met within the accuracy says so, whether the check is marginal or fails on the other.
   const part = (name: string, x: GradeLimitCheck | null, xLow: GradeLimitCheck | null, sign: "+" | "−") => {
     if (!x || x.deviation === null || x.pass === null) return `${name} not judged (no curve value)`;
-    const state = limitState(x, pg, xLow);
+    const state = limitState(x, xLow);
     if (state === "within") return `${name} ${signed(x.deviation, x.allowed)} as read (${allowance(x.allowed, sign)} allowed, ${withinWords(x, xLow!, pg.accuracy!, sign, true)})`;
     return `${name} ${signed(x.deviation, x.allowed)} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? "met" : "not met"})`;
   };
