@@ -164,16 +164,25 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const motorEff = readings.power.mode === "none" ? null : readings.power.motorEfficiency;
   const shaft = input !== null && motorEff !== null ? input * motorEff : null;
 
-  const engine = fieldCheck({
+  const runEngine = (measuredPower: number | undefined) => fieldCheck({
     curve,
     fluid,
     suction: { pressure: ps, elevation: readings.suction.elevation, pipeDiameter: readings.suction.diameter, accuracy: readings.suction.accuracy },
     discharge: { pressure: pd, elevation: readings.discharge.elevation, pipeDiameter: readings.discharge.diameter, accuracy: readings.discharge.accuracy },
     measuredFlow: readings.flow ?? undefined,
-    measuredPower: shaft ?? undefined,
+    measuredPower,
     grades: [grade],
     duty: duty ?? undefined,
   });
+  let engine = runEngine(shaft ?? undefined);
+  // A pump efficiency above 100 % (hydraulic power ρ·g·Q·H over the shaft power) cannot be: the power reading, its unit or
+  // the motor efficiency entered is wrong, so the grade's power and efficiency limits are not judged on it (they would read
+  // "met", a shaft power far below the curve's); the verdict is on flow and head only, and says why.
+  const pumpEfficiency = shaft !== null && shaft > 0 && engine.flow !== null ? (rho * G0 * engine.flow * engine.tdh) / shaft : null;
+  const impossiblePower = pumpEfficiency !== null && pumpEfficiency > 1
+    ? `the pump's efficiency comes out at ${fmtPctExact(pumpEfficiency, [1])}, above 100 % (hydraulic power over the shaft power), so a reading, its unit or the motor efficiency entered is wrong; the verdict is on flow and head only.`
+    : null;
+  if (impossiblePower) engine = runEngine(undefined);
   warnings.push(...engine.warnings.map((w) => w.message));
   const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
   // The grade's power and efficiency limits, where missed as read, within the power reading's accuracy (when entered).
@@ -248,7 +257,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     delivered: { flow: q, head: engine.tdh },
     deviation,
     power,
-    powerGrade: powerGradeOf(grade, verdict !== "unknown", readings.power, input, asRead, powerWithin),
+    powerGrade: powerGradeOf(grade, verdict !== "unknown", readings.power, input, asRead, powerWithin, impossiblePower),
     hints: [],
     warnings: [...new Set(warnings)],
     chart: {

@@ -38,8 +38,9 @@ type GradeWords = { id: string; powerAbove?: number; efficiencyBelow?: number };
  * @param input the motor's input power, W, or null
  * @param check the engine's judgement (fieldCheck's grade entry), or null
  * @param within where `check` misses a limit and the reading has an accuracy: a power within it meeting them, or null
+ * @param impossible why the power reading cannot be right (a pump efficiency above 100 %), or null: then not judged, with that reason
  */
-export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: PowerSI, input: number | null, check: GradePowerCheck | null, within: GradePowerWitness | null = null): PowerGrade {
+export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: PowerSI, input: number | null, check: GradePowerCheck | null, within: GradePowerWitness | null = null, impossible: string | null = null): PowerGrade {
   const not = (why: string): PowerGrade => ({ notJudged: `Power and efficiency were not judged against grade ${grade.id}: ${why}`, basis: null, check: null });
   if (!tolerance) return not("there is no tolerance verdict (the notes on the working say why).");
   if (power.mode === "none" || input === null) return not("no power was recorded, so the verdict is on flow and head only.");
@@ -48,6 +49,7 @@ export function powerGradeOf(grade: GradeWords, tolerance: boolean, power: Power
       "the motor's input power was recorded without the motor's efficiency, and the curve gives the pump's shaft power (input × motor efficiency), so the two cannot be compared. The verdict is on flow and head only; enter the motor's nameplate efficiency to judge them.",
     );
   if (grade.powerAbove === undefined && grade.efficiencyBelow === undefined) return not("the grade sets no power or efficiency limit.");
+  if (impossible) return not(impossible);
   if (!check || check.pass === null) return not("the curve gives neither power nor efficiency at the measured flow, so the verdict is on flow and head only.");
   const accuracy = power.readingAccuracy ?? null;
   const judged: PowerGrade = { notJudged: null, basis: { input, motorEfficiency: power.motorEfficiency }, check, accuracy };
