@@ -60,8 +60,8 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
         The search keeps the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged}; a page is a
         slice of one ranking, so <code>rank</code> runs on across pages. A pump whose verdict is outside the catalogue is hidden
         and fills no place: the search judges on down the ranking until {judged} are kept, the ranking ends or {SEARCH_FILL_JUDGED} are
-        judged. <code>hidden</code> counts the pumps hidden as outside the catalogue (<code>outsideCatalogue</code>) and the copies of one
-        curve merged (<code>duplicates</code>); <code>catalogueFilter</code>{" "}
+        judged. <code>hidden</code> counts the pumps hidden as outside the catalogue (<code>outsideCatalogue</code>) and the copies of the
+        curves judged merged from other libraries (<code>duplicates</code>); <code>catalogueFilter</code>{" "}
         <code>{"{ judged, atMost, kept, places, outsideCatalogue, cut, message }"}</code> says whether the list was cut (fewer than{" "}
         {judged} kept while pumps further down the ranking were left unjudged), with <code>message</code> saying so and why, else null.
         Without <code>page</code> the answer is the first {pageRows} results, as before paging. <code>stats</code> counts the curves searched, <code>rejectedByEnvelope</code> (out of their range),{" "}

@@ -2,11 +2,12 @@
 // "outside the catalogue" unless asked for, but it stopped judging once SEARCH_EVALUATED had been judged, hidden ones
 // included: each hidden row took a place a passing pump further down could fill, and the list came out short (58 rows of
 // 80 here). Now it judges on down the ranking until SEARCH_EVALUATED are kept, the ranking ends or SEARCH_FILL_JUDGED are
-// judged, and the page and the read API say when the list was cut, why and with the numbers. Real MariaDB, route modules
-// and guards; invented curve sets (app/test/big-library.ts). Check values: the same search with "allow beyond the
-// catalogue" (the ranking the hidden list must follow), our product rules (SEARCH_EVALUATED, SEARCH_FILL_JUDGED) and the
-// verdict's catalogue rule (engine verdict.ts: an impeller within the model's published diameters, so a model publishing
-// one impeller has every trim outside the catalogue).
+// judged, and the page and the read API say when the list was cut, why and with the numbers; the copies merged from other
+// libraries are counted among the pumps judged. Real MariaDB, route modules and guards; invented curve sets
+// (app/test/big-library.ts). Check values: the same search with "allow beyond the catalogue" (the ranking the hidden list
+// must follow), our product rules (SEARCH_EVALUATED, SEARCH_FILL_JUDGED) and the verdict's catalogue rule (engine
+// verdict.ts: an impeller within the model's published diameters, so a model publishing one impeller has every trim
+// outside the catalogue).
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { createRoutesStub } from "react-router";
@@ -134,4 +135,23 @@ describe("a ranking led by pumps outside the catalogue (800 invented models publ
     expect(body.hidden).toEqual({ outsideCatalogue: f.outsideCatalogue, duplicates: 0 });
     expect(body.paging.total).toBe(f.kept);
   });
+});
+
+describe("every curve in two libraries of the workspace (the 60 invented models imported twice)", () => {
+  test("the copies merged are counted among the pumps judged, whatever the engine ranked beyond them", async () => {
+    const m = await makeMember("admin");
+    const v = await viewerOfUser(m.userId);
+    for (const name of ["Copies A", "Copies B"]) {
+      const lib = await createLibrary(v, { name, description: "" });
+      await importCsvText(v, lib, bigLibraryCsv(60, 3000), `${name}.csv`);
+      await updateLibrary(v, lib, { name, description: "", visibility: "workspace" });
+    }
+    const systemId = await createSystem(v, await createProject(v, { name: "Copies", site: "", description: "" }), "Low duty", LOW_DUTY);
+    const r = await searchForSystem(v, systemId, {}, { pageSize: 1000 });
+    expect(r.paging.total).toBe(SEARCH_EVALUATED);
+    const f = r.catalogueFilter!;
+    expect(f.outsideCatalogue).toBeGreaterThan(0); // as above: the list was filled from further down
+    expect(r.hidden.duplicates).toBe(f.judged); // one copy of each pump judged (not of every row the engine returned)
+    expect(r.results.every((x) => x.alsoIn.length === 1)).toBe(true);
+  }, 60_000);
 });

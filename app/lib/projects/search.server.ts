@@ -298,8 +298,8 @@ type Kept = { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdic
  */
 function groupAndJudge(j: Judging, res: SearchResult) {
   const { prepared, libraryName, own, verdicts, input, filters } = j;
-  const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
-  let duplicates = 0;
+  // `copies`: rows of the same curve merged into the group (counted for the groups judged: the engine's limit changes none).
+  const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[]; copies: number }>();
   for (const c of res.candidates) {
     const s = prepared.setOf(c.id);
     let key = prepared.keys.get(c.id);
@@ -307,18 +307,19 @@ function groupAndJudge(j: Judging, res: SearchResult) {
     const lib = libraryName.get(s.revisionId) ?? "";
     const g = groups.get(key);
     if (!g) {
-      groups.set(key, { row: c, set: s, libraries: [lib] });
+      groups.set(key, { row: c, set: s, libraries: [lib], copies: 0 });
       continue;
     }
-    duplicates++;
+    g.copies++;
     if (!g.libraries.includes(lib)) g.libraries.push(lib);
     if (Math.abs(c.score - g.row.score) < 1e-12 && own.has(s.libraryId) && !own.has(g.set.libraryId)) { g.row = c; g.set = s; }
   }
-  let outsideCatalogue = 0, overPower = 0, judgedCount = 0;
+  let outsideCatalogue = 0, overPower = 0, judgedCount = 0, duplicates = 0;
   const kept: Kept[] = [];
   for (const g of groups.values()) {
     if (kept.length >= SEARCH_EVALUATED || judgedCount >= SEARCH_FILL_JUDGED) break;
     judgedCount++;
+    duplicates += g.copies;
     const method = g.row.method === "direct" ? "none" : g.row.method;
     const vk = `${g.set.id}#${method}`;
     let judged = verdicts.get(vk);
@@ -344,7 +345,7 @@ function groupAndJudge(j: Judging, res: SearchResult) {
       outsideCatalogue++;
       if (!filters.allowBeyondCatalogue) continue;
     }
-    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
+    kept.push({ row: g.row, set: g.set, libraries: g.libraries, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
   }
   const count: FillCount = { judged: judgedCount, kept: kept.length, groups: groups.size, returned: res.candidates.length, matched: res.stats.matched };
   return { kept, duplicates, outsideCatalogue, overPower, count };
