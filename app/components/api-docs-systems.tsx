@@ -1,5 +1,6 @@
 // The /api page's section on the systems read API (GET /api/v1/systems/:id and …/search).
 import { DocTable } from "./DocTable";
+import { SEARCH_FILL_JUDGED } from "~/lib/projects/search-fill";
 
 const VERDICTS: [string, string][] = [
   ["meets", "The operating flow is within the duty's tolerance (by default −0 % / +10 % of the duty flow; settable per system)."],
@@ -55,9 +56,14 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
       <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed][&amp;page=N]</h3>
       <p className="text-sm text-slate-700">
         Pumps from the libraries open to your workspace that meet the system's stored duty, ranked, {pageRows} a page:{" "}
-        <code>{"{ duty, message, stats, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
-        The search judges the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged} (fewer when
-        rows outside the catalogue are left out); a page is a slice of one ranking, so <code>rank</code> runs on across pages.
+        <code>{"{ duty, message, stats, hidden, catalogueFilter, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
+        The search keeps the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged}; a page is a
+        slice of one ranking, so <code>rank</code> runs on across pages. A pump whose verdict is outside the catalogue is hidden
+        and fills no place: the search judges on down the ranking until {judged} are kept, the ranking ends or {SEARCH_FILL_JUDGED} are
+        judged. <code>hidden</code> counts the pumps hidden as outside the catalogue (<code>outsideCatalogue</code>) and the copies of the
+        curves judged merged from other libraries (<code>duplicates</code>); <code>catalogueFilter</code>{" "}
+        <code>{"{ judged, atMost, kept, places, outsideCatalogue, cut, message }"}</code> says whether the list was cut (fewer than{" "}
+        {judged} kept while pumps further down the ranking were left unjudged), with <code>message</code> saying so and why, else null.
         Without <code>page</code> the answer is the first {pageRows} results, as before paging. <code>stats</code> counts the curves searched, <code>rejectedByEnvelope</code> (out of their range),{" "}
         <code>rejectedByNpsh</code> (NPSHr at the duty above the NPSHa there) and <code>matched</code>. Without a duty,{" "}
         <code>results</code> is empty and <code>message</code> says why; an unknown <code>method</code> is a 400.

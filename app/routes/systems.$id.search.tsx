@@ -68,6 +68,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     figuresRule: res.dutyCheck && res.system.input.duty ? `How, efficiency, vs BEP and shaft power: each pump as its verdict judges it (as the candidates table would show it): its trim or speed solved to deliver the duty flow ${qt("flow", res.system.input.duty.flow)} against the system's head there at the band's demanding edge (${qt("head", res.dutyCheck.governingHead)}, ${res.dutyCheck.governingEdge}), and the figures at its operating point, where that curve meets the system's design curve. The rank is the search's score at the typed duty (${qt("flow", res.system.input.duty.flow)} at ${qt("head", res.system.input.duty.head)}); "why this rank" quotes its figures there and says so where they differ from the row's.` : null,
     hidden: res.hidden,
     powerFilter: res.powerFilter,
+    // Rows outside the catalogue hidden fill no place: whether the list was cut, in words with its numbers (search-fill.ts).
+    catalogueCut: res.catalogueFilter?.message ?? null,
     leftOut: res.leftOut,
     dutyCheck: res.dutyCheck,
     npshRule: res.results.find((r) => r.npsh)?.npsh?.rule ?? null,
@@ -103,6 +105,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       ...startOf(r.verdict, r.stagedStart),
       // The cautions that qualify the verdict (dead-head, unstable crossings, band edges', start of a pump in parallel or series).
       cautions: r.cautions,
+      // The search's own warnings at the typed duty (the engine's: trim approximate; water figures on a liquid), as the API's `warnings`.
+      searchWarnings: searchWarningsOf(r.warnings, r.cautions),
       already: already.has(r.curveSetId),
     })),
     paging: res.paging,
@@ -141,6 +145,9 @@ function readPicks(values: unknown[], field: "one" | "add") {
   if (!picks.success) throw data({ errors: { [field]: picks.issues[0].message } }, { status: 400 });
   return picks.output;
 }
+
+/** The engine's warnings of a search row, each once and not already among its cautions. */
+const searchWarningsOf = (ws: readonly { message: string }[], cautions: readonly string[]) => [...new Set(ws.map((w) => w.message))].filter((w) => !cautions.includes(w));
 
 const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
 
@@ -214,6 +221,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             </span>
           ) : null}
           {d.hidden.outsideCatalogue ? ` · ${d.hidden.outsideCatalogue} outside the catalogue hidden (tick "allow beyond the catalogue" to see them)` : ""}
+          {d.catalogueCut ? <span className="caution" data-testid="search-catalogue-cut">{` · ${d.catalogueCut} (tick "allow beyond the catalogue" to see the hidden ones, or narrow the filters)`}</span> : null}
         </p>
       ) : null}
       {d.stats && d.customLiquid ? (
@@ -278,6 +286,9 @@ export default function Search({ actionData }: Route.ComponentProps) {
                           <summary>{r.cautions.length} caution{r.cautions.length === 1 ? "" : "s"}</summary>
                           <ul className="list-disc pl-4">{r.cautions.map((w) => <li key={w}>{w}</li>)}</ul>
                         </details>
+                      ) : null}
+                      {r.searchWarnings.length ? (
+                        <p className="text-xs text-slate-600" data-testid={`search-warnings-${r.curveSetId}`}>Search at the typed duty: {r.searchWarnings.join("; ")}</p>
                       ) : null}
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>

@@ -4,12 +4,12 @@
 // sets and the engine's prepared index over them are read and built once per app process and kept
 // compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
 // filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
-// `searchDuty`, groups the best rows, judges SEARCH_EVALUATED of them (with a max shaft power filter, on down the
-// ranking until that many pass it, at most SEARCH_POWER_JUDGED; the system's evaluation and its verdicts kept per
-// system input) and returns the page of rows asked for (SEARCH_SHOWN by default, SEARCH_PAGE_ROWS on the page). A
-// new revision, a saved input or a plan that opens or closes libraries is a new key, so it is seen at once; any
-// other process builds the same.
-import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type Verdict } from "~/engine";
+// `searchDuty`, groups the best rows, judges them in rank order until SEARCH_EVALUATED are kept (rows above a max shaft
+// power or hidden outside the catalogue take no place: on down the ranking, at most SEARCH_FILL_JUDGED, search-fill.ts;
+// the system's evaluation and its verdicts kept per system input) and returns the page of rows asked for (SEARCH_SHOWN
+// by default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that opens or closes libraries is a
+// new key, so it is seen at once; any other process builds the same.
+import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type SearchResult, type Verdict } from "~/engine";
 import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
@@ -21,6 +21,8 @@ import { promiseCache } from "../shared/promise-cache";
 import { clearKeptRevisions, curveSetAt, revisionCurves, toEngineSet } from "./revision-curves.server";
 import { pageOf, type Paging } from "../shared/paging";
 import { onWaterFigures, searchOnLiquid, type LiquidSearchPlan } from "./search-liquid";
+import { catalogueFilterOutcome, powerFilterOutcome, SEARCH_EVALUATED, SEARCH_FILL_JUDGED, type CatalogueFilterOutcome, type FillCount, type PowerFilterOutcome } from "./search-fill";
+export { SEARCH_EVALUATED, SEARCH_FILL_JUDGED, SEARCH_POWER_JUDGED, type CatalogueFilterOutcome, type PowerFilterOutcome } from "./search-fill";
 
 
 export type SearchFilters = {
@@ -33,15 +35,6 @@ export type SearchFilters = {
   allowBeyondCatalogue?: boolean;
 };
 
-/** Rows evaluated for their verdict at most (the engine ranks; the verdict filters). */
-export const SEARCH_EVALUATED = 80;
-/**
- * With a max shaft power filter, pumps judged at most to fill the SEARCH_EVALUATED places with pumps that pass it: the
- * filter acts on the power each verdict judges (at the operating point), so it can only act after judging, and a tight
- * limit leaves out many of the best-ranked pumps; the search goes on down the ranking until the places are filled,
- * the ranking ends or this many are judged (then the page says the list was cut).
- */
-export const SEARCH_POWER_JUDGED = SEARCH_EVALUATED * 4;
 /** Rows returned at once by default (the read API); the search page shows SEARCH_PAGE_ROWS a page. */
 export const SEARCH_SHOWN = 50;
 export const SEARCH_PAGE_ROWS = 25;
@@ -218,7 +211,7 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, catalogueFilter: null as CatalogueFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
@@ -237,67 +230,27 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const npshaAtDuty = npshaAtDutyOf(system.input, evaluation); // judged by the search, and shown with its count
   const duty = { flow: system.input.duty.flow, head: system.input.duty.head };
   const options = searchOptionsFor(system.input, evaluation, filters, npshaAtDuty);
-  // A max shaft power filter may leave out judged rows: the engine ranks enough for SEARCH_POWER_JUDGED groups.
-  if (filters.maxPowerW) options.limit = SEARCH_POWER_JUDGED * 2;
+  // A max shaft power filter may leave out many judged rows: the engine ranks enough for SEARCH_FILL_JUDGED groups at once.
+  if (filters.maxPowerW) options.limit = SEARCH_FILL_JUDGED * 2;
   // A custom liquid: searched at the equivalent water duty of ANSI/HI 9.6.7 (search-liquid.ts). Water: the engine's search alone.
   const fluid = system.input.fluid;
-  const onLiquid = fluid.kind === "custom" ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, options) : null;
-  const res = onLiquid ? onLiquid.result : searchDuty(prepared.index, duty, options);
-  // One row per distinct curve: the best-ranked copy stays, preferring the workspace's own library on a tie.
-  const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[] }>();
-  let duplicates = 0;
-  for (const c of res.candidates) {
-    const s = prepared.setOf(c.id);
-    let key = prepared.keys.get(c.id);
-    if (key === undefined) prepared.keys.set(c.id, (key = curveKey(s)));
-    const lib = libraryName.get(s.revisionId) ?? "";
-    const g = groups.get(key);
-    if (!g) {
-      groups.set(key, { row: c, set: s, libraries: [lib] });
-      continue;
-    }
-    duplicates++;
-    if (!g.libraries.includes(lib)) g.libraries.push(lib);
-    if (Math.abs(c.score - g.row.score) < 1e-12 && own.has(s.libraryId) && !own.has(g.set.libraryId)) { g.row = c; g.set = s; }
+  const searchAt = (limit: number) => fluid.kind === "custom"
+    ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, { ...options, limit })
+    : { result: searchDuty(prepared.index, duty, { ...options, limit }), plan: null };
+  const judging = { prepared, libraryName, own, verdicts, input: system.input, filters };
+  let found = searchAt(options.limit!);
+  let pass = groupAndJudge(judging, found.result);
+  // Rows left out after judging (hidden outside the catalogue, above the max shaft power) take no place: when the ranking
+  // ran out before the places were filled and the engine matched more than it returned, rank more (the verdicts are kept).
+  if (pass.kept.length < SEARCH_EVALUATED && pass.count.judged === pass.count.groups && pass.count.matched > pass.count.returned && options.limit! < SEARCH_FILL_JUDGED * 2) {
+    found = searchAt(SEARCH_FILL_JUDGED * 2);
+    pass = groupAndJudge(judging, found.result);
   }
-  // Verdict of each pump as it would be added (its method, the ratio solved against the system as the workbench does) on the band;
-  // the row shows that setting and its figures at the operating point (the engine's at the typed duty still rank it).
-  // Judged in rank order until SEARCH_EVALUATED pass the power filter (without one: the first SEARCH_EVALUATED), the
-  // ranking ends, or, with the filter, SEARCH_POWER_JUDGED are judged.
-  let outsideCatalogue = 0, overPower = 0, judgedCount = 0;
-  const judgeAtMost = filters.maxPowerW ? SEARCH_POWER_JUDGED : SEARCH_EVALUATED;
-  const kept: { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting | null }[] = [];
-  for (const g of groups.values()) {
-    if (judgedCount - overPower >= SEARCH_EVALUATED || judgedCount >= judgeAtMost) break;
-    judgedCount++;
-    const method = g.row.method === "direct" ? "none" : g.row.method;
-    const vk = `${g.set.id}#${method}`;
-    let judged = verdicts.get(vk);
-    if (judged === undefined) {
-      try {
-        const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
-        const e = evaluateCandidate(system.input, g.set, adj, { catalogue: catalogueOf(g.set) });
-        const f = e.figures;
-        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [], shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
-          efficiency: f?.efficiency ?? null, shaftPower: f?.shaftPower ?? null, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null } } : null;
-      } catch {
-        judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
-      }
-      verdicts.set(vk, judged);
-    }
-    const verdict = judged?.verdict ?? null;
-    // The max shaft power filter acts on the power the row shows (its operating point's), before paging: counts stay right.
-    if (filters.maxPowerW && judged?.shown.shaftPower != null && judged.shown.shaftPower > filters.maxPowerW) {
-      overPower++;
-      continue;
-    }
-    if (verdict?.status === "outside-catalogue") {
-      outsideCatalogue++;
-      if (!filters.allowBeyondCatalogue) continue;
-    }
-    kept.push({ ...g, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
-  }
-  const powerFilter = filters.maxPowerW ? powerFilterOutcome(filters.maxPowerW, judgedCount, overPower, groups.size, res) : null;
+  const res = found.result;
+  const plan = found.plan;
+  const { kept, duplicates, outsideCatalogue, overPower } = pass;
+  const powerFilter = filters.maxPowerW ? powerFilterOutcome(filters.maxPowerW, pass.count, overPower) : null;
+  const catalogueFilter = filters.allowBeyondCatalogue ? null : catalogueFilterOutcome(pass.count, outsideCatalogue);
   // Pumps that meet the system rank first, then oversized, then those two with a cavitation risk somewhere on the
   // band, then short, no operating point (stable within a class).
   kept.sort((a, b) => rankClass(a) - rankClass(b));
@@ -305,7 +258,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const { first, ...paging } = pageOf(kept.length, pageSize, opts.page);
   const upTo = kept.slice(0, first + pageSize);
   const notes = upTo.map((k, i) => (i === 0 ? null : rankClass(k) !== rankClass(upTo[i - 1]) ? `below #${i} because ${classText(k, "row")} where #${i} ${classText(upTo[i - 1], "above")}`
-    : onLiquid && onWaterFigures(k.row) && !onWaterFigures(upTo[i - 1].row) ? `below #${i} because its figures are the water curve's where #${i}'s are estimated on ${onLiquid.plan.liquid} (ANSI/HI 9.6.7 equivalent water duty)` : null));
+    : plan && onWaterFigures(k.row) && !onWaterFigures(upTo[i - 1].row) ? `below #${i} because its figures are the water curve's where #${i}'s are estimated on ${plan.liquid} (ANSI/HI 9.6.7 equivalent water duty)` : null));
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
@@ -329,20 +282,73 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     /** Pumps in parallel started one after another that leave the duty unmet (verdict-start.ts), as the candidate's result: [] here, one pump judged. */
     stagedStart,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: onLiquid?.plan ?? null, powerFilter, paging, message: null as string | null };
+  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: plan, powerFilter, catalogueFilter, paging, message: null as string | null };
 }
 
-/** What the max shaft power filter did: the limit (W), pumps judged (of `atMost`) and left out above it, and whether the list was cut. */
-export type PowerFilterOutcome = { limit: number; judged: number; atMost: number; overPower: number; cut: boolean };
+/** What `groupAndJudge` reads: the prepared search, library names, the workspace's own libraries, the kept verdicts, the system and the filters. */
+type Judging = { prepared: PreparedSearch; libraryName: Map<number, string>; own: Set<number>; verdicts: Map<string, Judged | null>; input: SystemInput; filters: SearchFilters };
+type Kept = { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting | null };
 
 /**
- * Cut: the places were not all filled with passing pumps, yet the judging stopped at SEARCH_POWER_JUDGED with curves
- * still unjudged, or the engine ranked more matching sets than it returned (its `limit`): pumps further down may pass.
+ * The engine's rows grouped, one per distinct curve (the best-ranked copy stays, preferring the workspace's own library on
+ * a tie), then judged in rank order: each pump's verdict as it would be added (its method, the ratio solved against the
+ * system as the workbench does) on the band, the row showing that setting and its figures at the operating point (the
+ * engine's at the typed duty still rank it). Rows above the max shaft power, and outside the catalogue unless asked for,
+ * are left out and fill no place: judged until SEARCH_EVALUATED are kept, the ranking ends or SEARCH_FILL_JUDGED are judged.
  */
-function powerFilterOutcome(limit: number, judged: number, overPower: number, groups: number, res: { candidates: readonly unknown[]; stats: { matched: number } }): PowerFilterOutcome {
-  const filled = judged - overPower >= SEARCH_EVALUATED;
-  const more = judged < groups || res.stats.matched > res.candidates.length;
-  return { limit, judged, atMost: SEARCH_POWER_JUDGED, overPower, cut: !filled && more };
+function groupAndJudge(j: Judging, res: SearchResult) {
+  const { prepared, libraryName, own, verdicts, input, filters } = j;
+  // `copies`: rows of the same curve merged into the group (counted for the groups judged: the engine's limit changes none).
+  const groups = new Map<string, { row: EngineCandidate; set: IndexedSet; libraries: string[]; copies: number }>();
+  for (const c of res.candidates) {
+    const s = prepared.setOf(c.id);
+    let key = prepared.keys.get(c.id);
+    if (key === undefined) prepared.keys.set(c.id, (key = curveKey(s)));
+    const lib = libraryName.get(s.revisionId) ?? "";
+    const g = groups.get(key);
+    if (!g) {
+      groups.set(key, { row: c, set: s, libraries: [lib], copies: 0 });
+      continue;
+    }
+    g.copies++;
+    if (!g.libraries.includes(lib)) g.libraries.push(lib);
+    if (Math.abs(c.score - g.row.score) < 1e-12 && own.has(s.libraryId) && !own.has(g.set.libraryId)) { g.row = c; g.set = s; }
+  }
+  let outsideCatalogue = 0, overPower = 0, judgedCount = 0, duplicates = 0;
+  const kept: Kept[] = [];
+  for (const g of groups.values()) {
+    if (kept.length >= SEARCH_EVALUATED || judgedCount >= SEARCH_FILL_JUDGED) break;
+    judgedCount++;
+    duplicates += g.copies;
+    const method = g.row.method === "direct" ? "none" : g.row.method;
+    const vk = `${g.set.id}#${method}`;
+    let judged = verdicts.get(vk);
+    if (judged === undefined) {
+      try {
+        const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
+        const e = evaluateCandidate(input, g.set, adj, { catalogue: catalogueOf(g.set) });
+        const f = e.figures;
+        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [], shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
+          efficiency: f?.efficiency ?? null, shaftPower: f?.shaftPower ?? null, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null } } : null;
+      } catch {
+        judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
+      }
+      verdicts.set(vk, judged);
+    }
+    const verdict = judged?.verdict ?? null;
+    // The max shaft power filter acts on the power the row shows (its operating point's), before paging: counts stay right.
+    if (filters.maxPowerW && judged?.shown.shaftPower != null && judged.shown.shaftPower > filters.maxPowerW) {
+      overPower++;
+      continue;
+    }
+    if (verdict?.status === "outside-catalogue") {
+      outsideCatalogue++;
+      if (!filters.allowBeyondCatalogue) continue;
+    }
+    kept.push({ row: g.row, set: g.set, libraries: g.libraries, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
+  }
+  const count: FillCount = { judged: judgedCount, kept: kept.length, groups: groups.size, returned: res.candidates.length, matched: res.stats.matched };
+  return { kept, duplicates, outsideCatalogue, overPower, count };
 }
 
 /**

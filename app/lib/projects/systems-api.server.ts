@@ -41,6 +41,13 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
      * C_η, the water duty in SI; or why the duty itself), the rule and the same line as the page; null for water.
      */
     liquidSearch: res.liquidSearch,
+    /** Rows left out of the results: pumps whose verdict is outside the catalogue (hidden: this API never offers them), copies of the curves judged merged from other libraries. */
+    hidden: { outsideCatalogue: res.hidden.outsideCatalogue, duplicates: res.hidden.duplicates },
+    /**
+     * Hidden rows fill none of the places, so the search judges on down the ranking: pumps judged (of `atMost`), rows kept
+     * for the `places`, pumps outside the catalogue among them, and whether the list was cut, with `message` saying so (search-fill.ts).
+     */
+    catalogueFilter: res.catalogueFilter,
     paging: res.paging,
     results: res.results.map(searchResultView),
   };
