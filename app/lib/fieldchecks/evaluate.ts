@@ -98,8 +98,11 @@ export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldChec
 const ON_CURVE = 1e-12;
 
 /** Usual causes, worded as things to check — never a diagnosis. */
-function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult }): string[] {
+function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult; delivered: CheckResult["delivered"] }): string[] {
   const hints: string[] = [];
+  // A pump adds head: a total head at or below zero means the readings are the wrong way round or misread (common practice).
+  if (r.delivered.head <= 0)
+    hints.push(`The pump's total head comes out at ${qt("head", r.delivered.head)}, ${r.delivered.head < 0 ? "below" : "at"} zero, but a running pump adds head: check that the suction and discharge readings are not swapped, each gauge's reference (gauge or absolute) and unit, and the gauge elevations.`);
   const { dutyFlow, dutyHead, curveHead } = r.deviation;
   const offDuty = dutyFlow !== null && Math.abs(dutyFlow) > 0.05;
   if (offDuty && dutyFlow! < 0 && (dutyHead ?? 0) > 0)
@@ -109,7 +112,8 @@ function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; sp
   if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
     hints.push(`The measured speed differs from the selection's speed (${fmtNumExact(r.speed.measured, [r.speed.design], 0)} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
   // A head on the curve within the rounding the tolerance cross allows (1e-12, the engine's gradeCross) is neither below nor above it.
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE)
+  // (Not where the head is at or below zero: the readings are misread, not the pump worn.)
+  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE && r.delivered.head > 0)
     hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
   if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > ON_CURVE)
     hints.push("The readings sit above the pump's curve: check the gauges' zero and calibration, the gauge elevations, the pipe diameters entered, and the flow meter's range and installation.");
