@@ -68,6 +68,31 @@ const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], t
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 
+/** The engine's rounding allowance on a limit (gradePower.ts EPS, a fraction): a deviation this close to the allowance is on it. */
+const EDGE = 1e-12;
+/** Below this (a fraction, 0.000001 percentage points) a deviation past its allowance prints with the allowance's digits. */
+const UNSEEN = 1e-8;
+
+/**
+ * A deviation against its allowance as judged (power: above the curve's, side "+"; efficiency: below, side "−"), e.g.
+ * "+3.5 % ≤ +4 % allowed"; on the edge within the rounding allowance "+4 % = +4 % allowed, at the limit (the allowance
+ * includes its edge)" (it printed "+4.000000 % ≤ +4 %"); past it by less than the digits show, "(past it by under
+ * 0.000001 points)" (it printed "+4.000000 % > +4 %" with nothing to tell why).
+ */
+function compared(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−", ofIt = ""): string {
+  const allowed = `${allowance(x.allowed, side)} allowed`;
+  const edge = edgeOf(x, side);
+  if (edge === "at") return `${allowance(x.allowed, side)}${ofIt} = ${allowed}, at the limit (the allowance includes its edge)`;
+  const sign = side === "+" ? (x.pass ? "≤" : ">") : x.pass ? "≥" : "<";
+  return `${signed(x.deviation, x.allowed)}${ofIt} ${sign} ${allowed}${edge === "unseen" ? " (past it by under 0.000001 points)" : ""}`;
+}
+
+/** "at": met on the allowance within the rounding allowance; "unseen": missed by less than the printed digits show; else null. */
+function edgeOf(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−"): "at" | "unseen" | null {
+  const margin = side === "+" ? x.allowed - x.deviation : x.deviation + x.allowed; // inside ≥ 0
+  return x.pass && Math.abs(margin) <= EDGE ? "at" : !x.pass && -margin < UNSEEN ? "unseen" : null;
+}
+
 /**
  * One limit's own state, whatever the other limit and the check's verdict: met as read; "within" — missed as read but met
  * at the lowest power within the reading's accuracy (`low`, from {@link lowOf}; a check that fails on the other limit, or on
@@ -114,7 +139,7 @@ function powerLine(p: GradeLimitCheck | null, basis: NonNullable<PowerGrade["bas
   const from = `input ${qt("power", basis.input)} × motor efficiency ${fmtPctLimit(basis.motorEfficiency)}`;
   if (p.curve === null || p.deviation === null || p.pass === null) return `Power: shaft ${qt("power", p.measured)} (${from}); the curve gives no power at the measured flow — not judged.`;
   const [measured, curve] = qtPair("power", p.measured, p.curve);
-  const head = `Power: shaft ${measured} (${from}) vs curve ${curve}: ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed`;
+  const head = `Power: shaft ${measured} (${from}) vs curve ${curve}: ${compared({ ...p, deviation: p.deviation, pass: p.pass }, "+")}`;
   const state = limitState(p, low);
   return state === "within" ? `${head} as read — ${withinWords(p, low!, pg.accuracy!, "+")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
@@ -122,7 +147,7 @@ function powerLine(p: GradeLimitCheck | null, basis: NonNullable<PowerGrade["bas
 function efficiencyLine(e: GradeLimitCheck | null, pg: PowerGrade, low: GradeLimitCheck | null): string | null {
   if (!e) return null;
   if (e.curve === null || e.deviation === null || e.pass === null) return `Efficiency: pump ${fmtPctExact(e.measured)} (ρ·g·Q·H / shaft power); the curve gives no efficiency at the measured flow — not judged.`;
-  const head = `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${signed(e.deviation, e.allowed)} of it ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed`;
+  const head = `Efficiency: pump ${fmtPctExact(e.measured, [e.curve])} (ρ·g·Q·H / shaft power) vs curve ${fmtPctExact(e.curve, [e.measured])}: ${compared({ ...e, deviation: e.deviation, pass: e.pass }, "−", " of it")}`;
   const state = limitState(e, low);
   return state === "within" ? `${head} as read — ${withinWords(e, low!, pg.accuracy!, "−")}.` : `${head} — ${state === "met" ? "met" : "not met"}.`;
 }
@@ -132,8 +157,8 @@ function limitsAt(c: Pick<GradePowerCheck, "power" | "efficiency">): string {
   const said: string[] = [];
   const p = c.power;
   const e = c.efficiency;
-  if (p && p.deviation !== null && p.pass !== null) said.push(`power ${signed(p.deviation, p.allowed)} ${p.pass ? "≤" : ">"} ${allowance(p.allowed, "+")} allowed`);
-  if (e && e.deviation !== null && e.pass !== null) said.push(`efficiency ${signed(e.deviation, e.allowed)} of the curve's ${e.pass ? "≥" : "<"} ${allowance(e.allowed, "−")} allowed`);
+  if (p && p.deviation !== null && p.pass !== null) said.push(`power ${compared({ ...p, deviation: p.deviation, pass: p.pass }, "+")}`);
+  if (e && e.deviation !== null && e.pass !== null) said.push(`efficiency ${compared({ ...e, deviation: e.deviation, pass: e.pass }, "−", " of the curve's")}`);
   return said.join(", ");
 }
 
@@ -207,7 +232,9 @@ export function powerGradeSummary(r: { grade: GradeWords; powerGrade?: PowerGrad
     if (!x || x.deviation === null || x.pass === null) return `${name} not judged (no curve value)`;
     const state = limitState(x, xLow);
     if (state === "within") return `${name} ${signed(x.deviation, x.allowed)} as read (${allowance(x.allowed, sign)} allowed, ${withinWords(x, xLow!, pg.accuracy!, sign, true)})`;
-    return `${name} ${signed(x.deviation, x.allowed)} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? "met" : "not met"})`;
+    const edge = edgeOf({ ...x, deviation: x.deviation, pass: x.pass }, sign);
+    const shown = edge === "at" ? allowance(x.allowed, sign) : signed(x.deviation, x.allowed);
+    return `${name} ${shown} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? (edge === "at" ? "met, at the limit" : "met") : edge === "unseen" ? "not met, past it by under 0.000001 points" : "not met"})`;
   };
   return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, low?.power ?? null, "+") : null, efficiency ? part("pump efficiency", efficiency, low?.efficiency ?? null, "−") : null].filter(Boolean).join(", ")}${accuracyClause(pg, pg.check)}.`;
 }
