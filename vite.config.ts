@@ -24,6 +24,9 @@ export default defineConfig({
   plugins: underVitest ? [] : [clientAddress(), reactRouter()],
   resolve: { tsconfigPaths: true },
   server: { host: "127.0.0.1" },
+  // The service worker, the field pages' manifest and our icons, served at the site's root (the top level holds only
+  // what the product owner lists: no public/ there).
+  publicDir: "app/public",
   test: {
     include: ["app/**/*.test.ts", "db/**/*.test.ts", "fixtures/**/*.test.ts"],
     environment: "node",

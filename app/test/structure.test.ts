@@ -1,7 +1,8 @@
 // House rules of issue 15 a reader can check without running the app: every page route has its own
 // ErrorBoundary (components/RouteError.tsx), in that route's words; no file in app/ is past 400 lines
 // (engine data tables may be listed below, none is today); app/lib holds only domain folders, each
-// with an index.ts as its face. A change that breaks one fails here.
+// with an index.ts as its face; the top level holds only what the product owner lists. A change that breaks one fails here.
+import { execFileSync } from "node:child_process";
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, test } from "vitest";
@@ -9,7 +10,20 @@ import routes from "~/routes";
 
 const ROOT = path.resolve(__dirname, "../..");
 
+/**
+ * The project's top level as the product owner fixed it (the brief's "Top level stays"), with package-lock.json, which
+ * `npm ci` needs; dotfiles and dot-folders (.ci/, .config/, .gitignore) are allowed. Generated folders (build/, .data/,
+ * node_modules/) are not tracked.
+ */
+const TOP_LEVEL = ["app", "db", "fixtures", "e2e", "package.json", "package-lock.json", "tsconfig.json", "vite.config.ts", "postcss.config.js", "react-router.config.ts", "drizzle.config.ts", "README.md", "DEVELOPERS.md"];
+
 describe("structure", () => {
+  test("the top level holds only what the product owner lists (and dotfiles): no public/, no eslint.config.js there", () => {
+    const tracked = execFileSync("git", ["ls-files"], { cwd: ROOT, encoding: "utf8" }).split("\n").filter(Boolean);
+    const top = [...new Set(tracked.map((f) => f.split("/")[0]))];
+    expect(top.filter((t) => !t.startsWith(".") && !TOP_LEVEL.includes(t))).toEqual([]);
+  });
+
   test("every page route (a module with a default export) has its own ErrorBoundary", () => {
     const files = new Set<string>();
     const visit = (list: readonly { file: string; children?: unknown }[]) => {

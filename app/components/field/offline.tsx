@@ -1,4 +1,4 @@
-// Registers the field pages' service worker (public/sw.js) and asks it to keep copies of the
+// Registers the field pages' service worker (app/public/sw.js) and asks it to keep copies of the
 // pages this contractor may need on site: the list, each selection's form (with its curve data,
 // which is in the page) and the scripts and styles they load. Answers true once they are kept.
 import { useEffect, useState } from "react";
