@@ -9,7 +9,8 @@
 // it — without a speed, with the importer's no-speed warning, which curveWarnings names) and a speed or Ø typed at zero
 // or below; a curve of another quantity with no head curve of its key is left out of the CSV; a contour drawn without
 // an efficiency level (above zero) is left out of the reading (model.ts contourReading), so its crossings
-// would be missing from the efficiency column. Each is named beside its curve in the sidebar, and "Check
+// would be missing from the efficiency column; an open contour at a level that also has a closed loop would leave which side
+// of that level a curve is on to a guess (mixedLevelProblem). Each is named beside its curve in the sidebar, and "Check
 // and import" (and the export) wait until none is left.
 import { impellerGiven, inCsv, refusedBlankKeys, type Calibration, type RefusedBlank } from "~/lib/tracer";
 import { NO_SPEED_WARNING } from "~/lib/import";
@@ -35,6 +36,27 @@ function contourProblem(c: Curve): string | null {
   if (c.kind !== "contour" || !c.points.length || c.level > 0) return null;
   const why = Number.isFinite(c.level) && c.level !== 0 ? `has efficiency level ${c.level} %, not above zero` : "has no efficiency level";
   return `Contour ${c.id} ${why}: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.`;
+}
+
+/** A contour the reading takes (contourReading: two points or more, a level above zero) as a closed loop (insideLevel: ticked, three points or more). */
+const readAs = (c: Curve) => (c.kind !== "contour" || c.points.length < 2 || !(c.level > 0) ? null : c.closed === true && c.points.length >= 3 ? "closed" : "open");
+
+/**
+ * An open contour at a level that also has a closed loop on its panel, or null. Which side of a level a head curve starts on
+ * is read from that level's closed loops (contours.ts insideLevel, even–odd) and only there; a level with an open line has
+ * no inside, so the tracer falls back to its guess, and with a closed loop beside it the guess would overrule what the loop
+ * says. Refused rather than guessed: a wrong side swaps the span above the level (the peak) with one below it (a dip).
+ */
+function mixedLevelProblem(c: Curve, s: TracerState): string | null {
+  if (readAs(c) !== "open") return null;
+  const loops = s.curves.filter((d) => d.panelId === c.panelId && d.level === c.level && readAs(d) === "closed");
+  if (!loops.length) return null;
+  const level = `${c.level} %`;
+  const them = loops.length === 1 ? `Contour ${loops[0].id} is a closed loop` : `Contours ${loops.map((d) => d.id).join(", ")} are closed loops`;
+  return `Contour ${c.id} (${level}) is an open line, and ${them} at ${level} too: the tracer reads which side of the ${level} contours a head curve is on ` +
+    `from that level's closed loops, and an open line has no inside, so with both at ${level} it would have to guess, and a wrong guess swaps the span above ${level} ` +
+    `(the peak) with one below it (a dip). Close Contour ${c.id}: where the chart cuts it off, click on along the chart's edge (round its corners) to where the line started, and tick “Closed loop” ` +
+    `(its last point then joins its first); or remove it.`;
 }
 
 /** The message for a blank speed the importer refuses; `next`: the curve next to it in the CSV, `nextMm`: that curve's Ø. */
@@ -87,7 +109,7 @@ export function curveProblems(s: TracerState, cals: Map<number, Calibration | st
   const refused = refusedBlanks(s, cals, heads);
   const out: CurveProblem[] = [];
   for (const c of s.curves) {
-    const contour = contourProblem(c);
+    const contour = contourProblem(c) ?? mixedLevelProblem(c, s);
     if (contour) out.push({ curveId: c.id, message: contour });
     if (!curves.includes(c)) continue;
     const q = quantityOf.get(c.panelId)!;

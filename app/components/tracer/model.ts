@@ -199,13 +199,16 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     const next = (level: number) => r.levels.find((L) => L > level) ?? null;
     if (r.crossings.length === 1) {
       const [x] = r.crossings;
-      out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, next: next(x.level), midpoint: x.x, taken: false });
+      out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, ...(x.touch ? { fromTouch: true, toTouch: true } : {}), next: next(x.level), midpoint: x.x, taken: false });
     }
     if (r.crossings.length >= 2 && oneContourOnly(r.crossings)) {
       const [a, b] = r.crossings, z = r.crossings[r.crossings.length - 1];
       const midpoint = r.gaps.find((g) => g.innermost && !g.toEnd && !g.fromStart)?.midpoint ?? (a.x + b.x) / 2;
-      const at = r.crossings.length > 2 ? { at: r.crossings.map((x) => x.x) } : {};
-      out.push({ ...who, level: a.level, from: a.x, to: r.crossings.length > 2 ? z.x : b.x, twice: true, ...at, next: next(a.level), midpoint, taken: false });
+      const touched = r.crossings.filter((x) => x.touch).map((x) => x.x);
+      const at = r.crossings.length > 2 ? { at: r.crossings.map((x) => x.x), ...(touched.length ? { touchedAt: touched } : {}) } : {};
+      const last = r.crossings.length > 2 ? z : b;
+      const ends = { ...(a.touch ? { fromTouch: true } : {}), ...(last.touch ? { toTouch: true } : {}) };
+      out.push({ ...who, level: a.level, from: a.x, to: last.x, twice: true, ...at, ...ends, next: next(a.level), midpoint, taken: false });
       continue;
     }
     if (!r.crossings.length && r.levels.length && h.points.length >= 2) {
@@ -218,8 +221,9 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     const bepMidpoint = inner.length > 1 ? { bepMidpoint: inner[0].fromStart ? null : inner[0].midpoint } : {};
     for (const g of r.gaps.filter((x) => x.innermost || x.outside)) {
       const span = { ...who, level: g.level, from: g.from, to: g.to, next: next(g.level), midpoint: g.midpoint };
-      if (g.outside) out.push({ ...span, valley: true, ...(g.fromTouch ? { fromTouch: true } : {}), ...(g.toTouch ? { toTouch: true } : {}), taken: false });
-      else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...bepMidpoint, taken: h.peakAtMidpoint === true });
+      const touches = { ...(g.fromTouch ? { fromTouch: true } : {}), ...(g.toTouch ? { toTouch: true } : {}) };
+      if (g.outside) out.push({ ...span, valley: true, ...touches, taken: false });
+      else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...touches, ...bepMidpoint, taken: h.peakAtMidpoint === true });
     }
   }
   return out;

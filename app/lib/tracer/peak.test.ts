@@ -85,8 +85,24 @@ describe("a curve that touches a contour without crossing it", () => {
       { from: 30, to: 50, level: 74, innermost: false, outside: true, fromTouch: true }, { from: 50, to: 70, level: 74, innermost: true },
     ]);
   });
-  it("stays a crossing where the level has an open contour (no inside to read the sides from)", () => {
+  it("is marked a touch on an open contour too, read from that contour's sides of the curve; an open line ending on the curve stays a crossing", () => {
+    // The open V (25, 9) → (30, 5) → (35, 9) stays above y = 5 on both sides of its tip (construction); before, a crossing.
+    const v = { level: 74, closed: false, points: [{ x: 25, y: 9 }, { x: 30, y: 5 }, { x: 35, y: 9 }] };
+    expect(crossings(curve, [v, { ...sq, closed: false }])[0]).toEqual({ x: 30, y: 5, level: 74, touch: true });
+    // Beside a closed contour of the level (insideLevel null: the level has an open one) the V is read alone, the same.
+    expect(crossings(curve, [v, sq])[0]).toEqual({ x: 30, y: 5, level: 74, touch: true });
+    // The open line (25, 9) → (35, 9) → (30, 5) stops on the curve: which side it goes on is not drawn, so a crossing.
     expect(crossings(curve, [{ ...tri, closed: false }, sq]).some((p) => p.touch)).toBe(false);
+    // An open line across the curve: a crossing (sides below and above).
+    expect(crossings(curve, [{ level: 74, closed: false, points: [{ x: 40, y: 0 }, { x: 42, y: 10 }] }])).toEqual([{ x: 41, y: 5, level: 74 }]);
+  });
+  it("leaves the guess for an open level to the crossings: a first touch of the top level does not make the curve start inside", () => {
+    // Open contours (no geometry to read the start from): 74 % touched at 10, 70 % crossed at 20, 74 % crossed at 30, 70 % at 60
+    // (invented). The guess (helper "tracerone") starts a curve inside its top level only when its first crossing is of that level;
+    // the first crossing here is 70 %'s, so no span from the start (before, the touch counted as that first crossing: "starts
+    // inside the 74 % contour" from 0 to 10).
+    const xs = [{ x: 10, y: 0, level: 74, touch: true as const }, { x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }];
+    expect(contourGaps(xs, 80, 0)).toEqual([]);
   });
 });
 

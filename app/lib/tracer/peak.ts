@@ -49,9 +49,15 @@ export type UnreadPeak = {
   twice?: boolean;
   /** With `twice`: the curve crosses contours of that level three times or more, at these flows (`from` the first, `to` the last). */
   at?: number[];
+  /** With `at`: those of its flows where the curve touches the contour without crossing it. */
+  touchedAt?: number[];
   /** Between `from` and `to`, two crossings of `level`, the curve is outside that level's contour (it left it and comes back in): the efficiency dips below the level; no box. */
   valley?: boolean;
-  /** With `valley`: the curve touches the contour at `from` (`fromTouch`) or `to` (`toTouch`) without crossing it (tangent, or grazing a vertex). */
+  /**
+   * The curve touches the level's contour at `from` (`fromTouch`) or `to` (`toTouch`) without crossing it (tangent, or grazing a vertex):
+   * on a `valley`, a span's end; on a `toEnd` (`fromStart`) span, its last (first) meeting with the level, from inside; on `lone`, both, its one meeting;
+   * on `twice`, its first or last meeting.
+   */
   fromTouch?: boolean;
   toTouch?: boolean;
   /** The curve crosses none of its panel's contours, whose levels these are: no efficiency from the chart; `level`, `from`, `to`, `midpoint` are NaN; no box. */
@@ -121,6 +127,8 @@ function manyWarning(p: UnreadPeak, flowUnit: string): string {
 
 /** "20.0, 40.0 and 60.0". */
 const listed = (xs: readonly number[]) => `${xs.slice(0, -1).map((x) => fmtNum(x)).join(", ")} and ${fmtNum(xs[xs.length - 1])}`;
+/** "20.0", or "20.0 and 40.0" (listed, for one value or more). */
+const listed1 = (xs: readonly number[]) => (xs.length === 1 ? fmtNum(xs[0]) : listed(xs));
 const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`);
 
 /**
@@ -140,7 +148,10 @@ function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): st
     ? `from there to the curve's end at ${fmtNum(p.to)} ${u}`
     : `from the curve's start at ${fmtNum(p.from)} ${u} to there`;
   const head =
-    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(crossing)} ${u}, ` +
+    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: ${
+      (end ? p.fromTouch : p.toTouch)
+        ? `its ${end ? "last" : "first"} meeting with it is a touch from inside at ${fmtNum(crossing)} ${u}, where it does not ${end ? "leave" : "enter"} it (tangent, or grazing a vertex; the efficiency there is ${typed(p.level)} %)`
+        : `it crosses it once, at ${fmtNum(crossing)} ${u}`}, ` +
     `and ${span} the contours say only that the efficiency is ${bound(p)}; the peak lies there or ${end ? "past the curve's end" : "before the curve's start"}`;
   const noBep =
     `No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, ` +
@@ -181,9 +192,12 @@ export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
 function loneWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   return (
-    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${typed(p.level)} % contour, once, at ${fmtNum(p.from)} ${u}: ` +
+    `${p.curve} (${keyText(p)}): the efficiency is not read. ${
+      p.fromTouch
+        ? `The curve meets one contour only, the ${typed(p.level)} % contour, and does not cross it: it touches it at ${fmtNum(p.from)} ${u} (tangent, or grazing a vertex) and stays on one side of it: `
+        : `The curve crosses one contour only, the ${typed(p.level)} % contour, once, at ${fmtNum(p.from)} ${u}: `}` +
     `the efficiency is known at that one flow only, and one value makes no efficiency curve (the engine reads efficiency, and shaft power from it, only between two rows or more, ` +
-    `yet would take a lone value as the best-efficiency point, at a contour crossing). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or ` +
+    `yet would take a lone value as the best-efficiency point, at a contour ${p.fromTouch ? "touch" : "crossing"}). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or ` +
     `best-efficiency point for it. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
   );
 }
@@ -201,7 +215,8 @@ function twiceWarning(p: UnreadPeak, flowUnit: string): string {
   const level = `${typed(p.level)} %`;
   if (p.at)
     return (
-      `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses contours of one level only, ${level}, ${p.at.length} times, at ${listed(p.at)} ${u}: ` +
+      `${p.curve} (${keyText(p)}): the efficiency is not read. The curve ${p.touchedAt ? "meets" : "crosses"} contours of one level only, ${level}, ${p.at.length} times, at ${listed(p.at)} ${u}` +
+      `${p.touchedAt ? ` (at ${listed1(p.touchedAt)} ${u} it touches one without crossing it, staying on its side)` : ""}: ` +
       `the efficiency is known at those flows only (${level}); between them the contours say only that it is above or below ${level} (inside or outside a contour), and outside them nothing, ` +
       `no other contour crossing the curve. So no row of the curve has an efficiency: the rows between the crossings are left blank (unread) and those outside have none to read ` +
       `(it is not carried past the crossings), and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
@@ -209,8 +224,12 @@ function twiceWarning(p: UnreadPeak, flowUnit: string): string {
       `the dips between them read at ${level} and no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
     );
   return (
-    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
-    `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}, and outside them nothing, no other contour crossing the curve. ` +
+    `${p.curve} (${keyText(p)}): the efficiency is not read. ${
+      p.fromTouch || p.toTouch
+        ? `The curve meets one contour only, the ${level} contour, twice: at ${fmtNum(p.from)} ${u} ${p.fromTouch ? "it touches it without crossing it" : "it crosses it"} and at ${fmtNum(p.to)} ${u} ${p.toTouch ? "it touches it without crossing it" : "it crosses it"} (a touch: tangent, or grazing a vertex, the curve staying on its side): ` +
+          `the efficiency is known at those two flows only (${level}); between them the contours say only that it is above or below ${level} (inside or outside the contour)`
+        : `The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
+          `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}`}, and outside them nothing, no other contour crossing the curve. ` +
     `So no row of the curve has an efficiency: the rows between the crossings are left blank (inside the contour) and those outside have none to read (it is not carried past the crossings), ` +
     `and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
     `No box is offered to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point: at ${level} it would be the curve's only efficiency row, and the engine reads ` +
@@ -252,12 +271,15 @@ function uncrossedWarning(p: UnreadPeak): string {
   );
 }
 
+const met = (touch?: boolean) => (touch ? "touched" : "crossed");
+const touched = (p: UnreadPeak) => p.fromTouch === true || p.toTouch === true;
+
 /** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
 export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const span = (p: UnreadPeak) =>
-    p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}`
-    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}`
+    p.toEnd ? `from ${fmtNum(p.from)} ${u}${p.fromTouch ? " (touched from inside)" : ""} to the curve's end at ${fmtNum(p.to)} ${u}`
+    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}${p.toTouch ? " (touched from inside)" : ""}`
     : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`;
   const one = (p: UnreadPeak) =>
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
@@ -270,8 +292,8 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
     uncrossed.length ? `no contour crossed, no efficiency written: ${uncrossed.map(keyText).join("; ")}` : "",
     valley.length ? `efficiency blank outside a contour between two of its crossings (read across from the rows either side, overstated): ${valley.map((p) => `${keyText(p)} below ${typed(p.level)} % at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`).join("; ")}` : "",
     spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",
-    lone.length ? `efficiency at one contour crossing only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
-    twice.length ? `efficiency at two crossings of one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
-    many.length ? `efficiency at crossings of one level only, none written: ${many.map((p) => `${keyText(p)} ${typed(p.level)} % at ${listed(p.at!)} ${u}`).join("; ")}` : "",
+    lone.length ? `efficiency at one contour ${lone.some((p) => p.fromTouch) ? "meeting" : "crossing"} only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} %${p.fromTouch ? " touched, not crossed," : ""} at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
+    twice.length ? `efficiency at two ${twice.some(touched) ? "meetings with" : "crossings of"} one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % ${touched(p) ? `${met(p.fromTouch)} at ${fmtNum(p.from)} and ${met(p.toTouch)} at` : `at ${fmtNum(p.from)} and`} ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
+    many.length ? `efficiency at ${many.some((p) => p.touchedAt) ? "meetings with" : "crossings of"} one level only, none written: ${many.map((p) => `${keyText(p)} ${typed(p.level)} % at ${listed(p.at!)} ${u}${p.touchedAt ? ` (touched, not crossed, at ${listed1(p.touchedAt)})` : ""}`).join("; ")}` : "",
   ].filter(Boolean).join("; ");
 }
