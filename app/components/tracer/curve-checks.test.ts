@@ -2,7 +2,8 @@
 // of one quantity with the same speed and impeller Ø (the CSV keeps one curve per key, so the other
 // would vanish), an impeller Ø left blank next to a curve of its speed that has one (the importer refuses
 // that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, a contour drawn without an
-// efficiency level, and an open contour at a level that also has a closed loop. Invented curves.
+// efficiency level (or one above 100 %), an open contour at a level that also has a closed loop, and two contours of
+// different levels that cross. Invented curves.
 import { describe, expect, it } from "vitest";
 import { calibrations, contourReading, csvOf, initialState, keyOf, tracedSets, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
@@ -93,7 +94,7 @@ describe("curve checks before import", () => {
     expect(withNewCurve(s, "contour").curves[2]).toMatchObject({ id: 3, kind: "contour", closed: false });
   });
 
-  it("flags a contour drawn without an efficiency level above zero (it was left out of the CSV without a word)", () => {
+  it("flags a contour drawn without an efficiency level above zero (it was left out of the CSV without a word), or above 100 %", () => {
     // Two vertical contours across the head curve at 40 and 60 m³/h (u = 300 and 400 on this invented paper).
     const line = (id: number, u: number, level: number): Curve => ({ id, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level, closed: false, points: [{ u, v: 50 }, { u, v: 450 }] });
     const withLevel = (level: number) => withCurves([curve(1, 1, 250, 50), line(2, 300, 70), line(3, 400, level)]);
@@ -107,6 +108,17 @@ describe("curve checks before import", () => {
         { curveId: 3, message: "Contour 3 has no efficiency level: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it." },
       ]);
     }
+    // Above 100 % (a typo for 74): before, let through, and the importer then refused "efficiency 364.22 % is above 100 %" and the like,
+    // values read between the crossings, with no word of the contour (import/validate.ts: no efficiency above 100 %).
+    expect(curveProblems(withLevel(740))).toEqual([
+      {
+        curveId: 3,
+        message: "Contour 3 has efficiency level 740 %, above 100 %: no pump runs above 100 %, and the importer refuses any efficiency above 100 % (it would name the values " +
+          "read between this contour's crossings, not the contour); type its level in % (0–100) or remove it.",
+      },
+    ]); // source: import/validate.ts rule (efficiency at most 100 %)
+    expect(refusedByImport(withLevel(740)).some(([, code]) => code === "efficiency-over-100")).toBe(true); // source: the importer itself, on the tracer's CSV
+    expect(curveProblems(withLevel(100))).toEqual([]); // 100 % is the limit, not above it (source: import/validate.ts)
     expect(curveProblems(withLevel(-5))[0].message).toBe("Contour 3 has efficiency level -5 %, not above zero: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.");
     expect(importBlock(withLevel(NaN))).toMatch(/^Fix 1 curve before import \(marked in “2 · Curves”\): Contour 3 has no efficiency level: it is left out/);
     // A contour just added, with no points yet, waits for its level without a word.
@@ -138,6 +150,24 @@ describe("curve checks before import", () => {
     expect(curveProblems({ ...s, curves: [s.curves[0], box, { ...arm, level: 70 }] })).toEqual([]);
     // A contour ticked closed with two points is read as an open line (no loop), so it counts as open here too.
     expect(curveProblems({ ...s, curves: [s.curves[0], { ...box, closed: true, points: box.points.slice(0, 2) }, arm] })).toEqual([]);
+  });
+
+  it("refuses two contours of different levels that cross each other, naming both and where (they were read as drawn)", () => {
+    // Invented: a 70 % line straight up at u 300 (40 m³/h), a 74 % line from (250, 100) to (350, 400): they cross at u 300, v 250,
+    // that is 40 m³/h and (500 − 250) / 8 = 31.25 m on this paper (construction).
+    const up: Curve = { id: 2, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 70, closed: false, points: [{ u: 300, v: 50 }, { u: 300, v: 450 }] };
+    const slant: Curve = { id: 3, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 74, closed: false, points: [{ u: 250, v: 100 }, { u: 350, v: 400 }] };
+    const s = withCurves([curve(1, 1, 250, 50), up, slant]);
+    expect(curveProblems(s)).toEqual([
+      {
+        curveId: 3,
+        message: "Contour 3 (74 %) crosses Contour 2 (70 %) at 40.0 m³/h, 31.3 m: lines of different efficiency never meet on a chart (a point has one efficiency), so a head " +
+          "curve near there would meet the 70 % and 74 % levels in an order the chart does not have. Move a point of either line so they do not cross, or click more points where they run close.",
+      },
+    ]); // source: construction (the crossing above), rounded as the page rounds
+    // Moved clear (the 74 % line right of 40 m³/h), or at the same level: no block.
+    expect(curveProblems({ ...s, curves: [s.curves[0], up, { ...slant, points: slant.points.map((p) => ({ ...p, u: p.u + 100 })) }] })).toEqual([]);
+    expect(curveProblems({ ...s, curves: [s.curves[0], up, { ...slant, level: 70 }] })).toEqual([]);
   });
 
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {

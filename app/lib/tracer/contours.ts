@@ -34,7 +34,8 @@ function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
   if (den === 0) return null;
   const t = ((q1.x - p1.x) * sy - (q1.y - p1.y) * sx) / den;
   const u = ((q1.x - p1.x) * ry - (q1.y - p1.y) * rx) / den;
-  if (t < 0 || t > 1 || u < 0 || u > 1) return null;
+  // Written so that NaN (a point that is not finite) meets nothing.
+  if (!(t >= 0 && t <= 1 && u >= 0 && u <= 1)) return null;
   return { x: p1.x + t * rx, y: p1.y + t * ry };
 }
 
@@ -152,6 +153,32 @@ function uAlong(a: XY, b: XY, p: XY): number {
 }
 
 /**
+ * Where two contours of different levels cross each other, one point per pair (the first found), as index pairs into
+ * `contours`. Lines of equal efficiency at different levels never meet on a chart (a point has one efficiency): a
+ * crossing is a drawing error, two lines clicked too coarsely where they run close. Any plane affine to the picture.
+ */
+export function contoursCrossing(contours: readonly Contour[]): { a: number; b: number; at: XY }[] {
+  const rings = contours.map((k) => (k.closed && k.points.length > 2 ? [...k.points, k.points[0]] : [...k.points]));
+  const out: { a: number; b: number; at: XY }[] = [];
+  for (let a = 0; a < contours.length; a++) {
+    for (let b = a + 1; b < contours.length; b++) {
+      if (contours[a].level === contours[b].level) continue;
+      const at = firstMeeting(rings[a], rings[b]);
+      if (at) out.push({ a, b, at });
+    }
+  }
+  return out;
+}
+
+function firstMeeting(p: readonly XY[], q: readonly XY[]): XY | null {
+  for (let i = 0; i + 1 < p.length; i++) for (let j = 0; j + 1 < q.length; j++) {
+    const at = cross(p[i], p[i + 1], q[j], q[j + 1]);
+    if (at) return at;
+  }
+  return null;
+}
+
+/**
  * A flow span where the contours do not say the efficiency: between two consecutive crossings of one
  * level, or (`toEnd`) from the last crossing to the curve's end when the curve ends inside the
  * innermost contour it crosses, or (`fromStart`) from the curve's start to the first crossing when it
@@ -169,11 +196,11 @@ export type ContourGap = {
 /**
  * Whether a point lies inside the contours of one level (even–odd rule over its closed loops: two islands
  * of one level, or a ring, count right); null when that level has an open contour or none closed (an arm
- * that leaves the chart has no inside the tracer can tell).
+ * that leaves the chart has no inside the tracer can tell), or a loop with a point that is not finite.
  */
 export function insideLevel(p: XY, contours: readonly Contour[], level: number): boolean | null {
   const of = contours.filter((k) => k.level === level);
-  if (!of.length || of.some((k) => !k.closed || k.points.length < 3)) return null;
+  if (!of.length || of.some((k) => !k.closed || k.points.length < 3 || !k.points.every((q) => Number.isFinite(q.x) && Number.isFinite(q.y)))) return null;
   let inside = false;
   for (const k of of) {
     const r = k.points;

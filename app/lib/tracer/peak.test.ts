@@ -106,6 +106,19 @@ describe("a curve that touches a contour without crossing it", () => {
   });
 });
 
+describe("a contour point that is not finite", () => {
+  it("meets nothing and leaves its loop without an inside (it gave a crossing at NaN)", () => {
+    // The square 20–40 × 0–10 with its first corner NaN or Infinity (invented); the line y = 5 over 0–100.
+    for (const bad of [NaN, Infinity]) {
+      const k = { level: 74, closed: true, points: [{ x: bad, y: 0 }, { x: 40, y: 0 }, { x: 40, y: 10 }, { x: 20, y: 10 }] };
+      const xs = crossings([{ x: 0, y: 5 }, { x: 100, y: 5 }], [k]);
+      expect(xs.every((p) => Number.isFinite(p.x) && Number.isFinite(p.y))).toBe(true);
+      expect(xs.map((p) => p.x)).toEqual([40]); // the side 40,0 → 40,10 only (construction)
+      expect(insideLevel({ x: 30, y: 5 }, [k], 74)).toBeNull();
+    }
+  });
+});
+
 describe("our CSV over a gap", () => {
   it("leaves efficiency blank strictly inside the gap and reads it elsewhere", () => {
     const rows = tracedRows([set], units, 9); // rows every 10 m³/h
