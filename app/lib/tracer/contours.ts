@@ -191,6 +191,11 @@ export type ContourGap = {
   from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true; outside?: true;
   /** The span starts (`fromTouch`) or ends (`toTouch`) where the curve touches the level's contour without crossing it. */
   fromTouch?: true; toTouch?: true;
+  /**
+   * An innermost span between two meetings whose first is the curve's first flow (`onStart`: the curve starts on the contour and goes
+   * in) or whose second is its last (`onEnd`: it ends on the contour): that end's row is at the level, the curve's first or last.
+   */
+  onStart?: true; onEnd?: true;
 };
 
 /**
@@ -227,12 +232,14 @@ export function insideLevel(p: XY, contours: readonly Contour[], level: number):
  * crossing when that crossing is of the highest level and the curve starts inside it.
  */
 export function contourGaps(xs: readonly Crossing[], end?: number, start?: number, startInside?: (level: number) => boolean | null): ContourGap[] {
+  const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
   const top = Math.max(...xs.map((p) => p.level));
   const first = xs[0], last = xs[xs.length - 1];
-  const topCount = xs.filter((p) => p.level === top && !p.touch).length;
-  const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
+  // A meeting at the curve's first flow (the curve starts on the line) is no crossing either: the curve begins on one side there.
+  const flips = (p: Crossing) => !p.touch && (start === undefined || past(p.x, start));
+  const topCount = xs.filter((p) => p.level === top && flips(p)).length;
   // The guess reads the crossings only: a touch leaves the curve on its side.
-  const xc = xs.filter((p) => !p.touch);
+  const xc = xs.filter(flips);
   const guessed = (level: number) =>
     level === top && topCount % 2 === 1 && xc.length >= 2 && xc[0].level === top && !(xc[xc.length - 1].level === top && past(end, xc[xc.length - 1].x));
   const at0 = new Map<number, boolean>();
@@ -244,12 +251,14 @@ export function contourGaps(xs: readonly Crossing[], end?: number, start?: numbe
   const out: ContourGap[] = [];
   for (let i = 0; i < xs.length; i++) {
     const L = xs[i].level;
-    if (!xs[i].touch) seen.set(L, (seen.get(L) ?? 0) + 1);
+    if (flips(xs[i])) seen.set(L, (seen.get(L) ?? 0) + 1);
     if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x) {
       const inside = inAtStart(L) !== ((seen.get(L) ?? 0) % 2 === 1);
+      const onStart = inside && L === top && start !== undefined && !past(xs[i].x, start), onEnd = inside && L === top && end !== undefined && !past(end, xs[i + 1].x);
       out.push({
         from: xs[i].x, to: xs[i + 1].x, level: L, innermost: inside && L === top, ...(inside ? {} : { outside: true as const }),
         ...(xs[i].touch ? { fromTouch: true as const } : {}), ...(xs[i + 1].touch ? { toTouch: true as const } : {}),
+        ...(onStart ? { onStart: true as const } : {}), ...(onEnd ? { onEnd: true as const } : {}),
       });
     }
   }
@@ -260,6 +269,21 @@ export function contourGaps(xs: readonly Crossing[], end?: number, start?: numbe
     out.unshift({ from: start, to: first.x, level: top, innermost: true, fromStart: true, ...(first.touch ? { toTouch: true as const } : {}) });
   }
   return out;
+}
+
+/**
+ * Whether the curve starts inside the contours of one level (insideLevel), read where it is clear of them: halfway from its
+ * first point to its next meeting with that level (or its end). Its first point itself may lie on a contour (a curve clicked
+ * from where it meets one), where the even–odd rule answers either way. Null as insideLevel.
+ */
+export function startsInside(curve: readonly XY[], xs: readonly Crossing[], contours: readonly Contour[], level: number): boolean | null {
+  const c = cleanPoints(curve);
+  if (!c.length) return null;
+  const x0 = c[0].x, x1 = c[c.length - 1].x;
+  const next = xs.find((p) => p.level === level && p.x > x0 + 1e-9 * (1 + Math.abs(x0)))?.x ?? x1;
+  const x = (x0 + next) / 2;
+  const y = c.length > 1 ? lineAt(c, x) : c[0].y;
+  return y === null ? null : insideLevel({ x, y }, contours, level);
 }
 
 /** The impeller's efficiency at flow x read from the crossings (null outside their range and inside a gap). */

@@ -51,6 +51,12 @@ export type UnreadPeak = {
   at?: number[];
   /** With `at`: those of its flows where the curve touches the contour without crossing it. */
   touchedAt?: number[];
+  /**
+   * A span between two meetings whose first is the curve's first flow (`onStart`: it starts on the contour and goes in) or whose second
+   * is its last (`onEnd`: it ends on the contour): that row is at the level, the curve's first (last) efficiency row.
+   */
+  onStart?: boolean;
+  onEnd?: boolean;
   /** Between `from` and `to`, two crossings of `level`, the curve is outside that level's contour (it left it and comes back in): the efficiency dips below the level; no box. */
   valley?: boolean;
   /**
@@ -97,9 +103,34 @@ export function peakWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
   const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
+  if (p.onStart || p.onEnd) return onEdgeWarning(p, flowUnit, head);
   return p.taken
     ? `${head}; the middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}), the rest of the span blank.`
     : `${head}, so the efficiency there is left blank: the engine reads it below ${typed(p.level)} % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+}
+
+/**
+ * The span between two meetings where the curve starts (`onStart`) or ends (`onEnd`) on the contour: that end's row is the
+ * curve's first (last) efficiency row, at the level, the highest written when the span is blank, so the engine (a BEP only at an
+ * interior peak of the efficiency rows, the first of equal rows: pumpCurve.ts) gives none unticked. Ticked, the middle at the
+ * level follows the row at the curve's end and is taken (an interior row, the first of the equal ones); at the curve's start
+ * the first row, at the level too, comes before it and is the first of the equal rows: still no BEP.
+ */
+function onEdgeWarning(p: UnreadPeak, flowUnit: string, head: string): string {
+  const u = flowUnitText(flowUnit);
+  const level = `${typed(p.level)} %`;
+  const mid = `${fmtNum(p.midpoint)} ${u}`;
+  const start = p.onStart === true;
+  const edge = start ? `The curve starts on the contour at ${fmtNum(p.from)} ${u}, so its first efficiency row is there, at ${level}` : `The curve ends on the contour at ${fmtNum(p.to)} ${u}, so its last efficiency row is there, at ${level}`;
+  const noBep = `no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`;
+  if (!p.taken)
+    return `${head}, so the efficiency there is left blank: the engine reads it below ${level} from the rows either side (power overstated). ${edge}, the highest written: ${noBep}. ` +
+      (start
+        ? `Tick the box to write the middle of the span, ${mid}, at ${level}: the efficiency (understated) and shaft power (overstated) then reach it, still with no best-efficiency point (the first row, at ${level} too, comes first, and the engine takes the first of equal rows).`
+        : `Tick the box to take the middle of the span, ${mid}, as the best-efficiency point at ${level}.`);
+  return start
+    ? `${head}; the middle of that span, ${mid}, is written at ${level} (understated ${understated(p)}), the rest of the span blank. ${edge} too, and the engine takes the first of equal rows, the curve's first: ${noBep}.`
+    : `${head}; the middle of that span, ${mid}, is written at ${level} and taken as the best-efficiency point (its efficiency understated ${understated(p)}; the row at the curve's end, at ${level} too, comes after it and the engine takes the first of equal rows), the rest of the span blank.`;
 }
 
 /**
@@ -119,7 +150,7 @@ function manyWarning(p: UnreadPeak, flowUnit: string): string {
   if (!p.taken)
     return `${head}. The efficiency is left blank in all of them: the engine reads it below ${level} from the rows either side (power overstated) and puts the best-efficiency point, if it gives one, outside the ${level} contours. Tick the box to write the middle of each span at ${level}.`;
   const bep = p.bepMidpoint === null
-    ? `the first of those equal rows is the middle of the span at the curve's start, its first efficiency row, so no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`
+    ? `the first of those equal rows is ${p.onStart ? "the row where the curve starts on the contour" : "the middle of the span at the curve's start"}, its first efficiency row, so no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`
     : p.bepMidpoint === p.midpoint ? `the engine takes the first of those equal rows, this one, ${mid}, as the best-efficiency point`
     : `the engine takes the first of those equal rows, ${fmtNum(p.bepMidpoint!)} ${u}, as the best-efficiency point, not this one`;
   return `${head}. The middle of this span, ${mid}, is written at ${level} (understated ${understated(p)}), the rest of it blank, and so is every span's middle: ${bep}.`;
@@ -178,6 +209,7 @@ export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
   const level = `${typed(p.level)} %`;
   if (p.bepMidpoint !== undefined)
     return `Write the middle of each span inside a ${level} contour at ${level} for ${p.curve}: ${p.bepMidpoint === null ? "the first is its first efficiency row, no best-efficiency point either way" : `the first, ${fmtNum(p.bepMidpoint)} ${flowUnitText(flowUnit)}, is taken as its best-efficiency point`}`;
+  if (p.onStart) return `Write the middle of the ${level} contour, ${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}, at ${level} for ${p.curve}: the curve starts on the contour, no best-efficiency point either way`;
   if (!p.toEnd && !p.fromStart) return `Take the middle of the ${level} contour as ${p.curve}’s best-efficiency point`;
   const mid = `${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}`;
   return `Write the middle of the span inside the ${level} contour, ${mid}, at ${level} for ${p.curve}: efficiency and shaft power ${p.toEnd ? "up to" : "from"} ${mid}, no best-efficiency point either way`;
@@ -284,6 +316,8 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
   const one = (p: UnreadPeak) =>
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
       p.bepMidpoint !== undefined ? (p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %, ${p.bepMidpoint === p.midpoint ? "the BEP" : "not the BEP"}` : "")
+      : p.onStart ? `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (the curve starts on the contour, its first row at ${typed(p.level)} %)`
+      : p.onEnd && !p.taken ? ", no BEP (the curve ends on the contour, its last row the highest)"
       : !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
       : `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (peak at or ${p.toEnd ? "past the end" : "before the start"} of the efficiency data)`}`;
   const spans = ps.filter((p) => !p.lone && !p.twice && !p.valley && !p.uncrossed), lone = ps.filter((p) => p.lone), twice = ps.filter((p) => p.twice && !p.at), many = ps.filter((p) => p.at);
