@@ -170,10 +170,15 @@ export function contoursCrossing(contours: readonly Contour[]): { a: number; b: 
   return out;
 }
 
+/** The first point where two polylines meet, or null; segments whose boxes do not overlap are skipped (the page runs this on every change). */
 function firstMeeting(p: readonly XY[], q: readonly XY[]): XY | null {
-  for (let i = 0; i + 1 < p.length; i++) for (let j = 0; j + 1 < q.length; j++) {
-    const at = cross(p[i], p[i + 1], q[j], q[j + 1]);
-    if (at) return at;
+  for (let i = 0; i + 1 < p.length; i++) {
+    const ax0 = Math.min(p[i].x, p[i + 1].x), ax1 = Math.max(p[i].x, p[i + 1].x), ay0 = Math.min(p[i].y, p[i + 1].y), ay1 = Math.max(p[i].y, p[i + 1].y);
+    for (let j = 0; j + 1 < q.length; j++) {
+      if (Math.max(q[j].x, q[j + 1].x) < ax0 || Math.min(q[j].x, q[j + 1].x) > ax1 || Math.max(q[j].y, q[j + 1].y) < ay0 || Math.min(q[j].y, q[j + 1].y) > ay1) continue;
+      const at = cross(p[i], p[i + 1], q[j], q[j + 1]);
+      if (at) return at;
+    }
   }
   return null;
 }
