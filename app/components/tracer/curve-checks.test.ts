@@ -1,10 +1,11 @@
 // What the tracer refuses to send to the import until the user fixes it (curve-checks.ts): two curves
 // of one quantity with the same speed and impeller Ø (the CSV keeps one curve per key, so the other
 // would vanish), an impeller Ø left blank next to a curve of its speed that has one (the importer refuses
-// that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, and a contour drawn without an
-// efficiency level. Invented curves.
+// that blank key cell; another speed's set without a Ø it takes), a speed left blank, a curve no head curve of its key takes, a contour drawn without an
+// efficiency level (or one above 100 %), an open contour at a level that also has a closed loop, and two contours of
+// different levels that cross. Invented curves.
 import { describe, expect, it } from "vitest";
-import { calibrations, csvOf, initialState, keyOf, tracedSets, withNewCurve, type Curve, type TracerState } from "./model";
+import { calibrations, contourReading, csvOf, initialState, keyOf, tracedSets, withNewCurve, type Curve, type TracerState } from "./model";
 import { curveProblems, curveWarnings, importBlock } from "./curve-checks";
 import { analyseCsv } from "~/lib/import";
 
@@ -93,7 +94,7 @@ describe("curve checks before import", () => {
     expect(withNewCurve(s, "contour").curves[2]).toMatchObject({ id: 3, kind: "contour", closed: false });
   });
 
-  it("flags a contour drawn without an efficiency level above zero (it was left out of the CSV without a word)", () => {
+  it("flags a contour drawn without an efficiency level above zero (it was left out of the CSV without a word), or above 100 %", () => {
     // Two vertical contours across the head curve at 40 and 60 m³/h (u = 300 and 400 on this invented paper).
     const line = (id: number, u: number, level: number): Curve => ({ id, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level, closed: false, points: [{ u, v: 50 }, { u, v: 450 }] });
     const withLevel = (level: number) => withCurves([curve(1, 1, 250, 50), line(2, 300, 70), line(3, 400, level)]);
@@ -107,10 +108,66 @@ describe("curve checks before import", () => {
         { curveId: 3, message: "Contour 3 has no efficiency level: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it." },
       ]);
     }
+    // Above 100 % (a typo for 74): before, let through, and the importer then refused "efficiency 364.22 % is above 100 %" and the like,
+    // values read between the crossings, with no word of the contour (import/validate.ts: no efficiency above 100 %).
+    expect(curveProblems(withLevel(740))).toEqual([
+      {
+        curveId: 3,
+        message: "Contour 3 has efficiency level 740 %, above 100 %: no pump runs above 100 %, and the importer refuses any efficiency above 100 % (it would name the values " +
+          "read between this contour's crossings, not the contour); type its level in % (0–100) or remove it.",
+      },
+    ]); // source: import/validate.ts rule (efficiency at most 100 %)
+    expect(refusedByImport(withLevel(740)).some(([, code]) => code === "efficiency-over-100")).toBe(true); // source: the importer itself, on the tracer's CSV
+    expect(curveProblems(withLevel(100))).toEqual([]); // 100 % is the limit, not above it (source: import/validate.ts)
     expect(curveProblems(withLevel(-5))[0].message).toBe("Contour 3 has efficiency level -5 %, not above zero: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.");
     expect(importBlock(withLevel(NaN))).toMatch(/^Fix 1 curve before import \(marked in “2 · Curves”\): Contour 3 has no efficiency level: it is left out/);
     // A contour just added, with no points yet, waits for its level without a word.
     expect(curveProblems(withNewCurve(withLevel(74), "contour"))).toEqual([]);
+  });
+
+  it("refuses a level drawn both as a closed loop and as an open line, naming the level (the side of it was guessed)", () => {
+    // Invented: a closed 74 % box over flow −10–30 m³/h (u 50–250) that the head curve starts inside and leaves at 30, and an open
+    // 74 % line across it at 60 (u 400). Before, the level read as open (no inside): the guess started the curve outside, so
+    // 30–60 read as the peak inside 74 % although the closed loop says the curve left it at 30.
+    const box: Curve = { id: 2, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 74, closed: true, points: [{ u: 50, v: 50 }, { u: 250, v: 50 }, { u: 250, v: 450 }, { u: 50, v: 450 }] };
+    const arm: Curve = { id: 3, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 74, closed: false, points: [{ u: 400, v: 50 }, { u: 400, v: 450 }] };
+    const s = withCurves([curve(1, 1, 250, 50), box, arm]);
+    // The guess the block keeps out of the CSV: 30–60 m³/h read as inside 74 % (source: construction, the box's side at 30–60 is outside).
+    expect(contourReading(s, s.curves[0], calibrations(s)).gaps.map((g) => [g.from, g.to, g.innermost])).toEqual([[30, 60, true]]);
+    expect(curveProblems(s)).toEqual([
+      {
+        curveId: 3,
+        message: "Contour 3 (74 %) is an open line, and Contour 2 is a closed loop at 74 % too: the tracer reads which side of the 74 % contours a head curve is on from that " +
+          "level's closed loops, and an open line has no inside, so with both at 74 % it would have to guess, and a wrong guess swaps the span above 74 % (the peak) with one " +
+          "below it (a dip). Close Contour 3: where the chart cuts it off, click on along the chart's edge (round its corners) to where the line started, and tick “Closed loop” " +
+          "(its last point then joins its first); or remove it.",
+      },
+    ]); // source: curve-checks.ts rule (an open contour beside a closed loop of its level)
+    expect(importBlock(s)).toMatch(/^Fix 1 curve before import \(marked in “2 · Curves”\): Contour 3 \(74 %\) is an open line/);
+    // Closed, or every contour of the level open (the guess as documented for open lines), or at another level: no block.
+    expect(curveProblems({ ...s, curves: [s.curves[0], box, { ...arm, closed: true, points: [...arm.points, { u: 500, v: 450 }] }] })).toEqual([]);
+    expect(curveProblems({ ...s, curves: [s.curves[0], { ...box, closed: false }, arm] })).toEqual([]);
+    expect(curveProblems({ ...s, curves: [s.curves[0], box, { ...arm, level: 70 }] })).toEqual([]);
+    // A contour ticked closed with two points is read as an open line (no loop), so it counts as open here too.
+    expect(curveProblems({ ...s, curves: [s.curves[0], { ...box, closed: true, points: box.points.slice(0, 2) }, arm] })).toEqual([]);
+  });
+
+  it("refuses two contours of different levels that cross each other, naming both and where (they were read as drawn)", () => {
+    // Invented: a 70 % line straight up at u 300 (40 m³/h), a 74 % line from (250, 100) to (350, 400): they cross at u 300, v 250,
+    // that is 40 m³/h and (500 − 250) / 8 = 31.25 m on this paper (construction).
+    const up: Curve = { id: 2, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 70, closed: false, points: [{ u: 300, v: 50 }, { u: 300, v: 450 }] };
+    const slant: Curve = { id: 3, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 74, closed: false, points: [{ u: 250, v: 100 }, { u: 350, v: 400 }] };
+    const s = withCurves([curve(1, 1, 250, 50), up, slant]);
+    expect(curveProblems(s)).toEqual([
+      {
+        curveId: 3,
+        message: "Contour 3 (74 %) crosses Contour 2 (70 %) at 40.0 m³/h, 31.3 m: lines of different efficiency never meet on a chart (a point has one efficiency), so a head " +
+          "curve near there would meet the 70 % and 74 % levels in an order the chart does not have. Move a point of either line so they do not cross, or click more points where they run close.",
+      },
+    ]); // source: construction (the crossing above), rounded as the page rounds
+    // Moved clear (the 74 % line right of 40 m³/h), or at the same level: no block.
+    expect(curveProblems({ ...s, curves: [s.curves[0], up, { ...slant, points: slant.points.map((p) => ({ ...p, u: p.u + 100 })) }] })).toEqual([]);
+    expect(curveProblems({ ...s, curves: [s.curves[0], up, { ...slant, level: 70 }] })).toEqual([]);
   });
 
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {

@@ -9,9 +9,11 @@
 // it — without a speed, with the importer's no-speed warning, which curveWarnings names) and a speed or Ø typed at zero
 // or below; a curve of another quantity with no head curve of its key is left out of the CSV; a contour drawn without
 // an efficiency level (above zero) is left out of the reading (model.ts contourReading), so its crossings
-// would be missing from the efficiency column. Each is named beside its curve in the sidebar, and "Check
+// would be missing from the efficiency column; an open contour at a level that also has a closed loop would leave which side
+// of that level a curve is on to a guess (mixedLevelProblem); two contours of different levels that cross (crossingContours). Each is named beside its curve in the sidebar, and "Check
 // and import" (and the export) wait until none is left.
-import { impellerGiven, inCsv, refusedBlankKeys, type Calibration, type RefusedBlank } from "~/lib/tracer";
+import { contoursCrossing, impellerGiven, inCsv, refusedBlankKeys, toData, type Calibration, type RefusedBlank } from "~/lib/tracer";
+import { fmtNum } from "~/lib/shared/format";
 import { NO_SPEED_WARNING } from "~/lib/import";
 import { QUANTITY_LABEL, calibrations, keyOf, tracedSets, type Curve, type TracerState } from "./model";
 
@@ -30,11 +32,65 @@ const warned = `with the importer's warning “${NO_SPEED_WARNING}”`;
 const rising = "with the flow rising on from one to the next";
 const restarts = ", or where its flow starts again (at or below theirs) where they meet, with the importer's key-not-given warning";
 
-/** A contour with points but no efficiency level above zero (blank is NaN, a new contour's 0), or null. */
+/**
+ * A contour with points but no efficiency level above zero (blank is NaN, a new contour's 0), or one above 100 % (a typo:
+ * the importer refuses any efficiency above 100 %, import/validate.ts, and would name the values read between the crossings,
+ * not the contour), or null.
+ */
 function contourProblem(c: Curve): string | null {
-  if (c.kind !== "contour" || !c.points.length || c.level > 0) return null;
+  if (c.kind !== "contour" || !c.points.length) return null;
+  if (c.level > 100)
+    return `Contour ${c.id} has efficiency level ${c.level} %, above 100 %: no pump runs above 100 %, and the importer refuses any efficiency above 100 % ` +
+      `(it would name the values read between this contour's crossings, not the contour); type its level in % (0–100) or remove it.`;
+  if (c.level > 0) return null;
   const why = Number.isFinite(c.level) && c.level !== 0 ? `has efficiency level ${c.level} %, not above zero` : "has no efficiency level";
   return `Contour ${c.id} ${why}: it is left out (no efficiency is read where it crosses a head curve); type its level in % or remove it.`;
+}
+
+/** A contour the reading takes (contourReading: two points or more, a level above zero) as a closed loop (insideLevel: ticked, three points or more). */
+const readAs = (c: Curve) => (c.kind !== "contour" || c.points.length < 2 || !(c.level > 0) ? null : c.closed === true && c.points.length >= 3 ? "closed" : "open");
+
+/**
+ * An open contour at a level that also has a closed loop on its panel, or null. Which side of a level a head curve starts on
+ * is read from that level's closed loops (contours.ts insideLevel, even–odd) and only there; a level with an open line has
+ * no inside, so the tracer falls back to its guess, and with a closed loop beside it the guess would overrule what the loop
+ * says. Refused rather than guessed: a wrong side swaps the span above the level (the peak) with one below it (a dip).
+ */
+function mixedLevelProblem(c: Curve, s: TracerState): string | null {
+  if (readAs(c) !== "open") return null;
+  const loops = s.curves.filter((d) => d.panelId === c.panelId && d.level === c.level && readAs(d) === "closed");
+  if (!loops.length) return null;
+  const level = `${c.level} %`;
+  const them = loops.length === 1 ? `Contour ${loops[0].id} is a closed loop` : `Contours ${loops.map((d) => d.id).join(", ")} are closed loops`;
+  return `Contour ${c.id} (${level}) is an open line, and ${them} at ${level} too: the tracer reads which side of the ${level} contours a head curve is on ` +
+    `from that level's closed loops, and an open line has no inside, so with both at ${level} it would have to guess, and a wrong guess swaps the span above ${level} ` +
+    `(the peak) with one below it (a dip). Close Contour ${c.id}: where the chart cuts it off, click on along the chart's edge (round its corners) to where the line started, and tick “Closed loop” ` +
+    `(its last point then joins its first); or remove it.`;
+}
+
+/**
+ * Each contour (by id) that crosses one of another level drawn before it on its panel, with the message, where the panel is
+ * calibrated (the crossing's flow and head given). Lines of different efficiency never meet on a chart (a point has one
+ * efficiency; contours.ts contoursCrossing): a head curve near there would meet the levels in an order the chart does not have.
+ */
+function crossingContours(s: TracerState, cals: Map<number, Calibration | string>): Map<number, string> {
+  const out = new Map<number, string>();
+  for (const panel of s.panels) {
+    const cal = cals.get(panel.id);
+    if (!cal || typeof cal === "string") continue;
+    const drawn = s.curves.filter((c) => c.panelId === panel.id && readAs(c) !== null);
+    const lines = drawn.map((c) => ({ level: c.level, closed: readAs(c) === "closed", points: c.points.map((p) => ({ x: p.u, y: p.v })) }));
+    for (const { a, b, at } of contoursCrossing(lines)) {
+      const [first, later] = [drawn[a], drawn[b]];
+      if (out.has(later.id)) continue;
+      const d = toData(cal, { u: at.x, v: at.y });
+      out.set(later.id,
+        `Contour ${later.id} (${later.level} %) crosses Contour ${first.id} (${first.level} %) at ${fmtNum(d.x)} ${s.flowUnit.replace("m3", "m³")}, ${fmtNum(d.y)} ${panel.unit}: ` +
+        `lines of different efficiency never meet on a chart (a point has one efficiency), so a head curve near there would meet the ${first.level} % and ${later.level} % levels ` +
+        `in an order the chart does not have. Move a point of either line so they do not cross, or click more points where they run close.`);
+    }
+  }
+  return out;
 }
 
 /** The message for a blank speed the importer refuses; `next`: the curve next to it in the CSV, `nextMm`: that curve's Ø. */
@@ -85,9 +141,10 @@ export function curveProblems(s: TracerState, cals: Map<number, Calibration | st
   const heads = curves.filter((c) => quantityOf.get(c.panelId) === "head");
   const headKeys = new Set(heads.map(keyOf));
   const refused = refusedBlanks(s, cals, heads);
+  const crossed = crossingContours(s, cals);
   const out: CurveProblem[] = [];
   for (const c of s.curves) {
-    const contour = contourProblem(c);
+    const contour = contourProblem(c) ?? mixedLevelProblem(c, s) ?? crossed.get(c.id) ?? null;
     if (contour) out.push({ curveId: c.id, message: contour });
     if (!curves.includes(c)) continue;
     const q = quantityOf.get(c.panelId)!;

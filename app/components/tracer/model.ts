@@ -1,7 +1,7 @@
 // The tracer page's working state and what is derived from it (calibrations, data points, CSV).
 // Pure TypeScript: the maths lives in app/lib/tracer; this only wires the page's choices to it.
 import {
-  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, insideLevel, csvImpellerMm, resample, toAxis, toData, tracedCsv,
+  axisValue, calibrate, cleanPoints, contourGaps, crossings, efficiencyFromContours, startsInside, csvImpellerMm, resample, toAxis, toData, tracedCsv,
   type AxisRef, type AxisScale, type Calibration, type Contour, type Crossing, type Px, type Quantity, type TracedSet, type TraceUnits, type XY,
 } from "~/lib/tracer";
 import type { UnreadPeak } from "~/lib/tracer/peak";
@@ -117,7 +117,11 @@ export type ContourReading = {
    * to the first crossing; `outside`: between two crossings of a level, outside its contour (the curve left it and comes back in; contours.ts);
    * `fromTouch`/`toTouch`: that end of the span is a touch of the contour, not a crossing (Crossing `touch`).
    */
-  gaps: { from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; outside: boolean; midpoint: number; fromTouch: boolean; toTouch: boolean }[];
+  gaps: {
+    from: number; to: number; level: number; innermost: boolean; toEnd: boolean; fromStart: boolean; outside: boolean; midpoint: number; fromTouch: boolean; toTouch: boolean;
+    /** An innermost span between two meetings that starts at the curve's first flow (`onStart`) or ends at its last (`onEnd`): the curve starts or ends on the contour. */
+    onStart: boolean; onEnd: boolean;
+  }[];
   levels: number[];
 };
 
@@ -139,11 +143,13 @@ export function contourReading(s: TracerState, head: Curve, cals: Map<number, Ca
   const levels = [...new Set(contours.map((c) => c.level))].sort((a, b) => a - b);
   const end = along.length ? along[along.length - 1].x : undefined;
   const start = along.length ? along[0].x : undefined;
-  // Inside or outside each level's contour at the curve's first point, from the closed loops' geometry (null for an open contour).
-  const startInside = (level: number) => (along.length ? insideLevel(along[0], contours, level) : null);
+  // Inside or outside each level's contour at the curve's start, from the closed loops' geometry (null for an open contour), read
+  // clear of the contour when the curve's first point lies on it.
+  const startInside = (level: number) => startsInside(along, xs, contours, level);
   const gaps = contourGaps(xs, end, start, startInside).map((g) => ({
     from: back(g.from), to: back(g.to), level: g.level, innermost: g.innermost, toEnd: g.toEnd === true, fromStart: g.fromStart === true,
     outside: g.outside === true, midpoint: back((g.from + g.to) / 2), fromTouch: g.fromTouch === true, toTouch: g.toTouch === true,
+    onStart: g.onStart === true, onEnd: g.onEnd === true,
   }));
   const crossingsOut = xs.map((x) => ({ ...x, x: back(x.x) }));
   if (xs.length < 2) return { crossings: crossingsOut, efficiency: crossingsOut.map((x) => ({ x: x.x, y: x.level })), gaps, levels };
@@ -199,13 +205,16 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     const next = (level: number) => r.levels.find((L) => L > level) ?? null;
     if (r.crossings.length === 1) {
       const [x] = r.crossings;
-      out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, next: next(x.level), midpoint: x.x, taken: false });
+      out.push({ ...who, level: x.level, from: x.x, to: x.x, lone: true, ...(x.touch ? { fromTouch: true, toTouch: true } : {}), next: next(x.level), midpoint: x.x, taken: false });
     }
     if (r.crossings.length >= 2 && oneContourOnly(r.crossings)) {
       const [a, b] = r.crossings, z = r.crossings[r.crossings.length - 1];
       const midpoint = r.gaps.find((g) => g.innermost && !g.toEnd && !g.fromStart)?.midpoint ?? (a.x + b.x) / 2;
-      const at = r.crossings.length > 2 ? { at: r.crossings.map((x) => x.x) } : {};
-      out.push({ ...who, level: a.level, from: a.x, to: r.crossings.length > 2 ? z.x : b.x, twice: true, ...at, next: next(a.level), midpoint, taken: false });
+      const touched = r.crossings.filter((x) => x.touch).map((x) => x.x);
+      const at = r.crossings.length > 2 ? { at: r.crossings.map((x) => x.x), ...(touched.length ? { touchedAt: touched } : {}) } : {};
+      const last = r.crossings.length > 2 ? z : b;
+      const ends = { ...(a.touch ? { fromTouch: true } : {}), ...(last.touch ? { toTouch: true } : {}) };
+      out.push({ ...who, level: a.level, from: a.x, to: last.x, twice: true, ...at, ...ends, next: next(a.level), midpoint, taken: false });
       continue;
     }
     if (!r.crossings.length && r.levels.length && h.points.length >= 2) {
@@ -215,11 +224,13 @@ export function unreadPeaks(s: TracerState, cals: Map<number, Calibration | stri
     // Two spans or more inside the top level's contours: ticked, every middle is written at the level and the engine takes the first of
     // equal rows as the BEP, none when that is the middle of the span at the curve's start (the first efficiency row).
     const inner = r.gaps.filter((x) => x.innermost);
-    const bepMidpoint = inner.length > 1 ? { bepMidpoint: inner[0].fromStart ? null : inner[0].midpoint } : {};
+    // A first span that starts on the contour at the curve's first flow has that row at the level too, first of the equal rows: no BEP either.
+    const bepMidpoint = inner.length > 1 ? { bepMidpoint: inner[0].fromStart || inner[0].onStart ? null : inner[0].midpoint } : {};
     for (const g of r.gaps.filter((x) => x.innermost || x.outside)) {
       const span = { ...who, level: g.level, from: g.from, to: g.to, next: next(g.level), midpoint: g.midpoint };
-      if (g.outside) out.push({ ...span, valley: true, ...(g.fromTouch ? { fromTouch: true } : {}), ...(g.toTouch ? { toTouch: true } : {}), taken: false });
-      else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...bepMidpoint, taken: h.peakAtMidpoint === true });
+      const touches = { ...(g.fromTouch ? { fromTouch: true } : {}), ...(g.toTouch ? { toTouch: true } : {}) };
+      if (g.outside) out.push({ ...span, valley: true, ...touches, taken: false });
+      else out.push({ ...span, toEnd: g.toEnd, fromStart: g.fromStart, ...touches, ...(g.onStart ? { onStart: true } : {}), ...(g.onEnd ? { onEnd: true } : {}), ...bepMidpoint, taken: h.peakAtMidpoint === true });
     }
   }
   return out;

@@ -34,7 +34,8 @@ function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
   if (den === 0) return null;
   const t = ((q1.x - p1.x) * sy - (q1.y - p1.y) * sx) / den;
   const u = ((q1.x - p1.x) * ry - (q1.y - p1.y) * rx) / den;
-  if (t < 0 || t > 1 || u < 0 || u > 1) return null;
+  // Written so that NaN (a point that is not finite) meets nothing.
+  if (!(t >= 0 && t <= 1 && u >= 0 && u <= 1)) return null;
   return { x: p1.x + t * rx, y: p1.y + t * ry };
 }
 
@@ -46,46 +47,140 @@ function lineAt(c: readonly XY[], x: number): number | null {
   return null;
 }
 
+/** A meeting as found: which contour (index) and where along it (segment index + fraction: its arc parameter). */
+type Meeting = Crossing & { k: number; s: number };
+
+/** The contour's point at arc parameter t (segment index + fraction; a closed ring's wraps round). */
+function pointAt(ring: readonly XY[], closed: boolean, t: number): XY {
+  const n = ring.length - 1;
+  const w = closed ? ((t % n) + n) % n : Math.min(Math.max(t, 0), n);
+  const j = Math.min(Math.floor(w), n - 1), f = w - j;
+  return { x: ring[j].x + f * (ring[j + 1].x - ring[j].x), y: ring[j].y + f * (ring[j + 1].y - ring[j].y) };
+}
+
+/**
+ * Whether one contour stays on one side of the curve through a meeting (a touch), read from that contour alone: the sign of
+ * (contour's y − curve's y at the contour's flow) just before and just after the meeting along the contour, halfway to its
+ * neighbouring meetings with the curve (closer in, halving, where halfway lies past the curve's flows). The curve is a line
+ * of flow, so its two sides are above and below: a contour that crosses it changes sides, one that touches it does not. A
+ * meeting at an open contour's end (the line stops on the curve), or where a side is not found, stays a crossing.
+ */
+function touchesLocally(c: readonly XY[], ring: readonly XY[], closed: boolean, s: number, ss: readonly number[]): boolean {
+  const n = ring.length - 1, eps = 1e-9;
+  if (!closed && (s <= eps || s >= n - eps)) return false;
+  // On a closed ring the parameter n is 0 again: one meeting at its first vertex is found at both.
+  const norm = (t: number) => (closed && t >= n - eps ? t - n : t);
+  s = norm(s);
+  const ts = ss.map(norm);
+  const lower = ts.filter((t) => t < s - eps).sort((u, v) => u - v), higher = ts.filter((t) => t > s + eps).sort((u, v) => u - v);
+  const prev = lower.length ? lower[lower.length - 1] : closed ? (higher.length ? higher[higher.length - 1] - n : s - n) : 0;
+  const next = higher.length ? higher[0] : closed ? (lower.length ? lower[0] + n : s + n) : n;
+  const x0 = c[0].x, x1 = c[c.length - 1].x;
+  const inFlows = (t: number) => {
+    const x = pointAt(ring, closed, t).x;
+    return x >= x0 && x <= x1;
+  };
+  // The way from the meeting to s + d stays over the curve's flows (the contour's vertices on it and its end), so no side is lost past an end.
+  const over = (d: number) => {
+    if (!inFlows(s + d)) return false;
+    for (let t = d > 0 ? Math.floor(s) + 1 : Math.ceil(s) - 1; d > 0 ? t < s + d : t > s + d; t += d > 0 ? 1 : -1) if (!inFlows(t)) return false;
+    return true;
+  };
+  const side = (to: number) => {
+    for (let d = (to - s) / 2, m = 0; m < 30; m++, d /= 2) {
+      if (!over(d)) continue;
+      const p = pointAt(ring, closed, s + d);
+      const y = lineAt(c, p.x);
+      if (y !== null && Math.abs(p.y - y) > 1e-12 * (1 + Math.abs(y))) return Math.sign(p.y - y);
+    }
+    return null;
+  };
+  const a = side(prev), b = side(next);
+  return a !== null && a === b;
+}
+
 /**
  * The crossings that are touches (`touch`): where the level's contours are all closed (insideLevel), the curve's sides
  * just before and after are read halfway to the neighbouring meeting with that level (or the curve's start or end),
- * where no other meeting with it lies between; the same side both ways is a touch. A meeting at the curve's first or
- * last flow, or with a level that has an open contour (no inside to tell), stays a crossing.
+ * where no other meeting with it lies between; the same side both ways is a touch. Where the level has an open contour
+ * (no inside to tell), the meeting's own contour is read instead (touchesLocally: it stays above or below the curve
+ * through the meeting). A meeting at the curve's first or last flow stays a crossing.
  */
-function markTouches(c: readonly XY[], xs: readonly Crossing[], contours: readonly Contour[]): Crossing[] {
-  if (c.length < 2) return [...xs];
+function markTouches(c: readonly XY[], xs: readonly Meeting[], all: readonly Meeting[], contours: readonly Contour[], rings: readonly XY[][]): Crossing[] {
+  if (c.length < 2) return xs.map(({ k: _k, s: _s, ...p }) => p);
   const x0 = c[0].x, x1 = c[c.length - 1].x;
-  return xs.map((p) => {
+  return xs.map(({ k, s, ...p }) => {
     const same = xs.filter((q) => q.level === p.level);
-    const k = same.indexOf(p);
-    const before = ((k > 0 ? same[k - 1].x : x0) + p.x) / 2, after = (p.x + (k + 1 < same.length ? same[k + 1].x : x1)) / 2;
+    const i = same.findIndex((q) => q.k === k && q.s === s);
+    const before = ((i > 0 ? same[i - 1].x : x0) + p.x) / 2, after = (p.x + (i + 1 < same.length ? same[i + 1].x : x1)) / 2;
     if (!(before < p.x && after > p.x)) return p;
     const side = (x: number) => {
       const y = lineAt(c, x);
       return y === null ? null : insideLevel({ x, y }, contours, p.level);
     };
     const a = side(before), b = side(after);
-    return a !== null && a === b ? { ...p, touch: true as const } : p;
+    const touch = a !== null && b !== null ? a === b
+      : touchesLocally(c, rings[k], contours[k].closed && contours[k].points.length > 2, s, all.filter((q) => q.k === k).map((q) => q.s).sort((u, v) => u - v));
+    return touch ? { ...p, touch: true as const } : p;
   });
 }
 
 /** Every meeting of the curve (a polyline in flow order) with the contours, in order of flow: crossings, and touches marked `touch`. */
 export function crossings(curve: readonly XY[], contours: readonly Contour[]): Crossing[] {
   const c = cleanPoints(curve);
-  const out: Crossing[] = [];
-  for (const k of contours) {
-    const ring = k.closed && k.points.length > 2 ? [...k.points, k.points[0]] : k.points;
+  const out: Meeting[] = [];
+  const rings = contours.map((k) => (k.closed && k.points.length > 2 ? [...k.points, k.points[0]] : [...k.points]));
+  contours.forEach((k, ki) => {
+    const ring = rings[ki];
     for (let i = 0; i + 1 < c.length; i++) {
       for (let j = 0; j + 1 < ring.length; j++) {
         const p = cross(c[i], c[i + 1], ring[j], ring[j + 1]);
-        if (p) out.push({ ...p, level: k.level });
+        if (p) out.push({ x: p.x, y: p.y, level: k.level, k: ki, s: j + uAlong(ring[j], ring[j + 1], p) });
       }
     }
-  }
+  });
   out.sort((a, b) => a.x - b.x);
   // A contour passing through a shared vertex is found twice (a touch there too): keep one.
   const once = out.filter((p, i) => i === 0 || !(p.level === out[i - 1].level && Math.abs(p.x - out[i - 1].x) < 1e-9 * (1 + Math.abs(p.x))));
-  return markTouches(c, once, contours);
+  return markTouches(c, once, out, contours, rings);
+}
+
+/** Where p lies along the segment a→b, 0 to 1. */
+function uAlong(a: XY, b: XY, p: XY): number {
+  const dx = b.x - a.x, dy = b.y - a.y;
+  const d = dx * dx + dy * dy;
+  return d === 0 ? 0 : Math.min(1, Math.max(0, ((p.x - a.x) * dx + (p.y - a.y) * dy) / d));
+}
+
+/**
+ * Where two contours of different levels cross each other, one point per pair (the first found), as index pairs into
+ * `contours`. Lines of equal efficiency at different levels never meet on a chart (a point has one efficiency): a
+ * crossing is a drawing error, two lines clicked too coarsely where they run close. Any plane affine to the picture.
+ */
+export function contoursCrossing(contours: readonly Contour[]): { a: number; b: number; at: XY }[] {
+  const rings = contours.map((k) => (k.closed && k.points.length > 2 ? [...k.points, k.points[0]] : [...k.points]));
+  const out: { a: number; b: number; at: XY }[] = [];
+  for (let a = 0; a < contours.length; a++) {
+    for (let b = a + 1; b < contours.length; b++) {
+      if (contours[a].level === contours[b].level) continue;
+      const at = firstMeeting(rings[a], rings[b]);
+      if (at) out.push({ a, b, at });
+    }
+  }
+  return out;
+}
+
+/** The first point where two polylines meet, or null; segments whose boxes do not overlap are skipped (the page runs this on every change). */
+function firstMeeting(p: readonly XY[], q: readonly XY[]): XY | null {
+  for (let i = 0; i + 1 < p.length; i++) {
+    const ax0 = Math.min(p[i].x, p[i + 1].x), ax1 = Math.max(p[i].x, p[i + 1].x), ay0 = Math.min(p[i].y, p[i + 1].y), ay1 = Math.max(p[i].y, p[i + 1].y);
+    for (let j = 0; j + 1 < q.length; j++) {
+      if (Math.max(q[j].x, q[j + 1].x) < ax0 || Math.min(q[j].x, q[j + 1].x) > ax1 || Math.max(q[j].y, q[j + 1].y) < ay0 || Math.min(q[j].y, q[j + 1].y) > ay1) continue;
+      const at = cross(p[i], p[i + 1], q[j], q[j + 1]);
+      if (at) return at;
+    }
+  }
+  return null;
 }
 
 /**
@@ -101,16 +196,21 @@ export type ContourGap = {
   from: number; to: number; level: number; innermost: boolean; toEnd?: true; fromStart?: true; outside?: true;
   /** The span starts (`fromTouch`) or ends (`toTouch`) where the curve touches the level's contour without crossing it. */
   fromTouch?: true; toTouch?: true;
+  /**
+   * An innermost span between two meetings whose first is the curve's first flow (`onStart`: the curve starts on the contour and goes
+   * in) or whose second is its last (`onEnd`: it ends on the contour): that end's row is at the level, the curve's first or last.
+   */
+  onStart?: true; onEnd?: true;
 };
 
 /**
  * Whether a point lies inside the contours of one level (even–odd rule over its closed loops: two islands
  * of one level, or a ring, count right); null when that level has an open contour or none closed (an arm
- * that leaves the chart has no inside the tracer can tell).
+ * that leaves the chart has no inside the tracer can tell), or a loop with a point that is not finite.
  */
 export function insideLevel(p: XY, contours: readonly Contour[], level: number): boolean | null {
   const of = contours.filter((k) => k.level === level);
-  if (!of.length || of.some((k) => !k.closed || k.points.length < 3)) return null;
+  if (!of.length || of.some((k) => !k.closed || k.points.length < 3 || !k.points.every((q) => Number.isFinite(q.x) && Number.isFinite(q.y)))) return null;
   let inside = false;
   for (const k of of) {
     const r = k.points;
@@ -137,12 +237,16 @@ export function insideLevel(p: XY, contours: readonly Contour[], level: number):
  * crossing when that crossing is of the highest level and the curve starts inside it.
  */
 export function contourGaps(xs: readonly Crossing[], end?: number, start?: number, startInside?: (level: number) => boolean | null): ContourGap[] {
+  const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
   const top = Math.max(...xs.map((p) => p.level));
   const first = xs[0], last = xs[xs.length - 1];
-  const topCount = xs.filter((p) => p.level === top && !p.touch).length;
-  const past = (a: number | undefined, b: number) => a !== undefined && a > b + 1e-9 * (1 + Math.abs(b));
+  // A meeting at the curve's first flow (the curve starts on the line) is no crossing either: the curve begins on one side there.
+  const flips = (p: Crossing) => !p.touch && (start === undefined || past(p.x, start));
+  const topCount = xs.filter((p) => p.level === top && flips(p)).length;
+  // The guess reads the crossings only: a touch leaves the curve on its side.
+  const xc = xs.filter(flips);
   const guessed = (level: number) =>
-    level === top && topCount % 2 === 1 && xs.length >= 2 && first.level === top && !(last.level === top && past(end, last.x));
+    level === top && topCount % 2 === 1 && xc.length >= 2 && xc[0].level === top && !(xc[xc.length - 1].level === top && past(end, xc[xc.length - 1].x));
   const at0 = new Map<number, boolean>();
   const inAtStart = (level: number) => {
     if (!at0.has(level)) at0.set(level, startInside?.(level) ?? guessed(level));
@@ -152,22 +256,39 @@ export function contourGaps(xs: readonly Crossing[], end?: number, start?: numbe
   const out: ContourGap[] = [];
   for (let i = 0; i < xs.length; i++) {
     const L = xs[i].level;
-    if (!xs[i].touch) seen.set(L, (seen.get(L) ?? 0) + 1);
+    if (flips(xs[i])) seen.set(L, (seen.get(L) ?? 0) + 1);
     if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x) {
       const inside = inAtStart(L) !== ((seen.get(L) ?? 0) % 2 === 1);
+      const onStart = inside && L === top && start !== undefined && !past(xs[i].x, start), onEnd = inside && L === top && end !== undefined && !past(end, xs[i + 1].x);
       out.push({
         from: xs[i].x, to: xs[i + 1].x, level: L, innermost: inside && L === top, ...(inside ? {} : { outside: true as const }),
         ...(xs[i].touch ? { fromTouch: true as const } : {}), ...(xs[i + 1].touch ? { toTouch: true as const } : {}),
+        ...(onStart ? { onStart: true as const } : {}), ...(onEnd ? { onEnd: true as const } : {}),
       });
     }
   }
   if (last && last.level === top && inAtStart(top) !== (topCount % 2 === 1) && past(end, last.x)) {
-    out.push({ from: last.x, to: end!, level: top, innermost: true, toEnd: true });
+    out.push({ from: last.x, to: end!, level: top, innermost: true, toEnd: true, ...(last.touch ? { fromTouch: true as const } : {}) });
   }
   if (start !== undefined && first && first.level === top && inAtStart(top) && past(first.x, start)) {
-    out.unshift({ from: start, to: first.x, level: top, innermost: true, fromStart: true });
+    out.unshift({ from: start, to: first.x, level: top, innermost: true, fromStart: true, ...(first.touch ? { toTouch: true as const } : {}) });
   }
   return out;
+}
+
+/**
+ * Whether the curve starts inside the contours of one level (insideLevel), read where it is clear of them: halfway from its
+ * first point to its next meeting with that level (or its end). Its first point itself may lie on a contour (a curve clicked
+ * from where it meets one), where the even–odd rule answers either way. Null as insideLevel.
+ */
+export function startsInside(curve: readonly XY[], xs: readonly Crossing[], contours: readonly Contour[], level: number): boolean | null {
+  const c = cleanPoints(curve);
+  if (!c.length) return null;
+  const x0 = c[0].x, x1 = c[c.length - 1].x;
+  const next = xs.find((p) => p.level === level && p.x > x0 + 1e-9 * (1 + Math.abs(x0)))?.x ?? x1;
+  const x = (x0 + next) / 2;
+  const y = c.length > 1 ? lineAt(c, x) : c[0].y;
+  return y === null ? null : insideLevel({ x, y }, contours, level);
 }
 
 /** The impeller's efficiency at flow x read from the crossings (null outside their range and inside a gap). */

@@ -85,8 +85,37 @@ describe("a curve that touches a contour without crossing it", () => {
       { from: 30, to: 50, level: 74, innermost: false, outside: true, fromTouch: true }, { from: 50, to: 70, level: 74, innermost: true },
     ]);
   });
-  it("stays a crossing where the level has an open contour (no inside to read the sides from)", () => {
+  it("is marked a touch on an open contour too, read from that contour's sides of the curve; an open line ending on the curve stays a crossing", () => {
+    // The open V (25, 9) → (30, 5) → (35, 9) stays above y = 5 on both sides of its tip (construction); before, a crossing.
+    const v = { level: 74, closed: false, points: [{ x: 25, y: 9 }, { x: 30, y: 5 }, { x: 35, y: 9 }] };
+    expect(crossings(curve, [v, { ...sq, closed: false }])[0]).toEqual({ x: 30, y: 5, level: 74, touch: true });
+    // Beside a closed contour of the level (insideLevel null: the level has an open one) the V is read alone, the same.
+    expect(crossings(curve, [v, sq])[0]).toEqual({ x: 30, y: 5, level: 74, touch: true });
+    // The open line (25, 9) → (35, 9) → (30, 5) stops on the curve: which side it goes on is not drawn, so a crossing.
     expect(crossings(curve, [{ ...tri, closed: false }, sq]).some((p) => p.touch)).toBe(false);
+    // An open line across the curve: a crossing (sides below and above).
+    expect(crossings(curve, [{ level: 74, closed: false, points: [{ x: 40, y: 0 }, { x: 42, y: 10 }] }])).toEqual([{ x: 41, y: 5, level: 74 }]);
+  });
+  it("leaves the guess for an open level to the crossings: a first touch of the top level does not make the curve start inside", () => {
+    // Open contours (no geometry to read the start from): 74 % touched at 10, 70 % crossed at 20, 74 % crossed at 30, 70 % at 60
+    // (invented). The guess (helper "tracerone") starts a curve inside its top level only when its first crossing is of that level;
+    // the first crossing here is 70 %'s, so no span from the start (before, the touch counted as that first crossing: "starts
+    // inside the 74 % contour" from 0 to 10).
+    const xs = [{ x: 10, y: 0, level: 74, touch: true as const }, { x: 20, y: 0, level: 70 }, { x: 30, y: 0, level: 74 }, { x: 60, y: 0, level: 70 }];
+    expect(contourGaps(xs, 80, 0)).toEqual([]);
+  });
+});
+
+describe("a contour point that is not finite", () => {
+  it("meets nothing and leaves its loop without an inside (it gave a crossing at NaN)", () => {
+    // The square 20–40 × 0–10 with its first corner NaN or Infinity (invented); the line y = 5 over 0–100.
+    for (const bad of [NaN, Infinity]) {
+      const k = { level: 74, closed: true, points: [{ x: bad, y: 0 }, { x: 40, y: 0 }, { x: 40, y: 10 }, { x: 20, y: 10 }] };
+      const xs = crossings([{ x: 0, y: 5 }, { x: 100, y: 5 }], [k]);
+      expect(xs.every((p) => Number.isFinite(p.x) && Number.isFinite(p.y))).toBe(true);
+      expect(xs.map((p) => p.x)).toEqual([40]); // the side 40,0 → 40,10 only (construction)
+      expect(insideLevel({ x: 30, y: 5 }, [k], 74)).toBeNull();
+    }
   });
 });
 

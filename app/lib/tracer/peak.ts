@@ -49,9 +49,21 @@ export type UnreadPeak = {
   twice?: boolean;
   /** With `twice`: the curve crosses contours of that level three times or more, at these flows (`from` the first, `to` the last). */
   at?: number[];
+  /** With `at`: those of its flows where the curve touches the contour without crossing it. */
+  touchedAt?: number[];
+  /**
+   * A span between two meetings whose first is the curve's first flow (`onStart`: it starts on the contour and goes in) or whose second
+   * is its last (`onEnd`: it ends on the contour): that row is at the level, the curve's first (last) efficiency row.
+   */
+  onStart?: boolean;
+  onEnd?: boolean;
   /** Between `from` and `to`, two crossings of `level`, the curve is outside that level's contour (it left it and comes back in): the efficiency dips below the level; no box. */
   valley?: boolean;
-  /** With `valley`: the curve touches the contour at `from` (`fromTouch`) or `to` (`toTouch`) without crossing it (tangent, or grazing a vertex). */
+  /**
+   * The curve touches the level's contour at `from` (`fromTouch`) or `to` (`toTouch`) without crossing it (tangent, or grazing a vertex):
+   * on a `valley`, a span's end; on a `toEnd` (`fromStart`) span, its last (first) meeting with the level, from inside; on `lone`, both, its one meeting;
+   * on `twice`, its first or last meeting.
+   */
   fromTouch?: boolean;
   toTouch?: boolean;
   /** The curve crosses none of its panel's contours, whose levels these are: no efficiency from the chart; `level`, `from`, `to`, `midpoint` are NaN; no box. */
@@ -91,9 +103,34 @@ export function peakWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const span = `from ${fmtNum(p.from)} to ${fmtNum(p.to)} ${u}`;
   const head = `${p.curve} (${keyText(p)}): the peak is not traced. Inside the ${typed(p.level)} % contour, ${span}, the contours say only that the efficiency is ${bound(p)}`;
+  if (p.onStart || p.onEnd) return onEdgeWarning(p, flowUnit, head);
   return p.taken
     ? `${head}; the middle of that span, ${fmtNum(p.midpoint)} ${u}, is written at ${typed(p.level)} % and taken as the best-efficiency point (its efficiency understated ${understated(p)}), the rest of the span blank.`
     : `${head}, so the efficiency there is left blank: the engine reads it below ${typed(p.level)} % from the rows either side (power overstated) and puts the best-efficiency point outside the contour. Tick the box to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point at ${typed(p.level)} %.`;
+}
+
+/**
+ * The span between two meetings where the curve starts (`onStart`) or ends (`onEnd`) on the contour: that end's row is the
+ * curve's first (last) efficiency row, at the level, the highest written when the span is blank, so the engine (a BEP only at an
+ * interior peak of the efficiency rows, the first of equal rows: pumpCurve.ts) gives none unticked. Ticked, the middle at the
+ * level follows the row at the curve's end and is taken (an interior row, the first of the equal ones); at the curve's start
+ * the first row, at the level too, comes before it and is the first of the equal rows: still no BEP.
+ */
+function onEdgeWarning(p: UnreadPeak, flowUnit: string, head: string): string {
+  const u = flowUnitText(flowUnit);
+  const level = `${typed(p.level)} %`;
+  const mid = `${fmtNum(p.midpoint)} ${u}`;
+  const start = p.onStart === true;
+  const edge = start ? `The curve starts on the contour at ${fmtNum(p.from)} ${u}, so its first efficiency row is there, at ${level}` : `The curve ends on the contour at ${fmtNum(p.to)} ${u}, so its last efficiency row is there, at ${level}`;
+  const noBep = `no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`;
+  if (!p.taken)
+    return `${head}, so the efficiency there is left blank: the engine reads it below ${level} from the rows either side (power overstated). ${edge}, the highest written: ${noBep}. ` +
+      (start
+        ? `Tick the box to write the middle of the span, ${mid}, at ${level}: the efficiency (understated) and shaft power (overstated) then reach it, still with no best-efficiency point (the first row, at ${level} too, comes first, and the engine takes the first of equal rows).`
+        : `Tick the box to take the middle of the span, ${mid}, as the best-efficiency point at ${level}.`);
+  return start
+    ? `${head}; the middle of that span, ${mid}, is written at ${level} (understated ${understated(p)}), the rest of the span blank. ${edge} too, and the engine takes the first of equal rows, the curve's first: ${noBep}.`
+    : `${head}; the middle of that span, ${mid}, is written at ${level} and taken as the best-efficiency point (its efficiency understated ${understated(p)}; the row at the curve's end, at ${level} too, comes after it and the engine takes the first of equal rows), the rest of the span blank.`;
 }
 
 /**
@@ -113,7 +150,7 @@ function manyWarning(p: UnreadPeak, flowUnit: string): string {
   if (!p.taken)
     return `${head}. The efficiency is left blank in all of them: the engine reads it below ${level} from the rows either side (power overstated) and puts the best-efficiency point, if it gives one, outside the ${level} contours. Tick the box to write the middle of each span at ${level}.`;
   const bep = p.bepMidpoint === null
-    ? `the first of those equal rows is the middle of the span at the curve's start, its first efficiency row, so no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`
+    ? `the first of those equal rows is ${p.onStart ? "the row where the curve starts on the contour" : "the middle of the span at the curve's start"}, its first efficiency row, so no best-efficiency point is known for this curve (the engine gives one only at a peak with efficiency rows on both sides)`
     : p.bepMidpoint === p.midpoint ? `the engine takes the first of those equal rows, this one, ${mid}, as the best-efficiency point`
     : `the engine takes the first of those equal rows, ${fmtNum(p.bepMidpoint!)} ${u}, as the best-efficiency point, not this one`;
   return `${head}. The middle of this span, ${mid}, is written at ${level} (understated ${understated(p)}), the rest of it blank, and so is every span's middle: ${bep}.`;
@@ -121,6 +158,8 @@ function manyWarning(p: UnreadPeak, flowUnit: string): string {
 
 /** "20.0, 40.0 and 60.0". */
 const listed = (xs: readonly number[]) => `${xs.slice(0, -1).map((x) => fmtNum(x)).join(", ")} and ${fmtNum(xs[xs.length - 1])}`;
+/** "20.0", or "20.0 and 40.0" (listed, for one value or more). */
+const listed1 = (xs: readonly number[]) => (xs.length === 1 ? fmtNum(xs[0]) : listed(xs));
 const understated = (p: UnreadPeak) => (p.next == null ? "by an amount the chart does not show" : `by less than ${typed(p.next - p.level)} points`);
 
 /**
@@ -140,7 +179,10 @@ function edgeWarning(p: UnreadPeak, flowUnit: string, side: "end" | "start"): st
     ? `from there to the curve's end at ${fmtNum(p.to)} ${u}`
     : `from the curve's start at ${fmtNum(p.from)} ${u} to there`;
   const head =
-    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: it crosses it once, at ${fmtNum(crossing)} ${u}, ` +
+    `${p.curve} (${keyText(p)}): the peak is not traced. The curve ${end ? "ends" : "starts"} inside the ${typed(p.level)} % contour: ${
+      (end ? p.fromTouch : p.toTouch)
+        ? `its ${end ? "last" : "first"} meeting with it is a touch from inside at ${fmtNum(crossing)} ${u}, where it does not ${end ? "leave" : "enter"} it (tangent, or grazing a vertex; the efficiency there is ${typed(p.level)} %)`
+        : `it crosses it once, at ${fmtNum(crossing)} ${u}`}, ` +
     `and ${span} the contours say only that the efficiency is ${bound(p)}; the peak lies there or ${end ? "past the curve's end" : "before the curve's start"}`;
   const noBep =
     `No best-efficiency point is known for this curve: the engine gives one only at a peak with efficiency rows on both sides, ` +
@@ -167,6 +209,7 @@ export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
   const level = `${typed(p.level)} %`;
   if (p.bepMidpoint !== undefined)
     return `Write the middle of each span inside a ${level} contour at ${level} for ${p.curve}: ${p.bepMidpoint === null ? "the first is its first efficiency row, no best-efficiency point either way" : `the first, ${fmtNum(p.bepMidpoint)} ${flowUnitText(flowUnit)}, is taken as its best-efficiency point`}`;
+  if (p.onStart) return `Write the middle of the ${level} contour, ${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}, at ${level} for ${p.curve}: the curve starts on the contour, no best-efficiency point either way`;
   if (!p.toEnd && !p.fromStart) return `Take the middle of the ${level} contour as ${p.curve}’s best-efficiency point`;
   const mid = `${fmtNum(p.midpoint)} ${flowUnitText(flowUnit)}`;
   return `Write the middle of the span inside the ${level} contour, ${mid}, at ${level} for ${p.curve}: efficiency and shaft power ${p.toEnd ? "up to" : "from"} ${mid}, no best-efficiency point either way`;
@@ -181,9 +224,12 @@ export function peakBoxLabel(p: UnreadPeak, flowUnit: string): string | null {
 function loneWarning(p: UnreadPeak, flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   return (
-    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${typed(p.level)} % contour, once, at ${fmtNum(p.from)} ${u}: ` +
+    `${p.curve} (${keyText(p)}): the efficiency is not read. ${
+      p.fromTouch
+        ? `The curve meets one contour only, the ${typed(p.level)} % contour, and does not cross it: it touches it at ${fmtNum(p.from)} ${u} (tangent, or grazing a vertex) and stays on one side of it: `
+        : `The curve crosses one contour only, the ${typed(p.level)} % contour, once, at ${fmtNum(p.from)} ${u}: `}` +
     `the efficiency is known at that one flow only, and one value makes no efficiency curve (the engine reads efficiency, and shaft power from it, only between two rows or more, ` +
-    `yet would take a lone value as the best-efficiency point, at a contour crossing). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or ` +
+    `yet would take a lone value as the best-efficiency point, at a contour ${p.fromTouch ? "touch" : "crossing"}). So the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or ` +
     `best-efficiency point for it. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
   );
 }
@@ -201,7 +247,8 @@ function twiceWarning(p: UnreadPeak, flowUnit: string): string {
   const level = `${typed(p.level)} %`;
   if (p.at)
     return (
-      `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses contours of one level only, ${level}, ${p.at.length} times, at ${listed(p.at)} ${u}: ` +
+      `${p.curve} (${keyText(p)}): the efficiency is not read. The curve ${p.touchedAt ? "meets" : "crosses"} contours of one level only, ${level}, ${p.at.length} times, at ${listed(p.at)} ${u}` +
+      `${p.touchedAt ? ` (at ${listed1(p.touchedAt)} ${u} it touches one without crossing it, staying on its side)` : ""}: ` +
       `the efficiency is known at those flows only (${level}); between them the contours say only that it is above or below ${level} (inside or outside a contour), and outside them nothing, ` +
       `no other contour crossing the curve. So no row of the curve has an efficiency: the rows between the crossings are left blank (unread) and those outside have none to read ` +
       `(it is not carried past the crossings), and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
@@ -209,8 +256,12 @@ function twiceWarning(p: UnreadPeak, flowUnit: string): string {
       `the dips between them read at ${level} and no best-efficiency point. Trace more of the contours it crosses, or its efficiency curve on an efficiency panel.`
     );
   return (
-    `${p.curve} (${keyText(p)}): the efficiency is not read. The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
-    `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}, and outside them nothing, no other contour crossing the curve. ` +
+    `${p.curve} (${keyText(p)}): the efficiency is not read. ${
+      p.fromTouch || p.toTouch
+        ? `The curve meets one contour only, the ${level} contour, twice: at ${fmtNum(p.from)} ${u} ${p.fromTouch ? "it touches it without crossing it" : "it crosses it"} and at ${fmtNum(p.to)} ${u} ${p.toTouch ? "it touches it without crossing it" : "it crosses it"} (a touch: tangent, or grazing a vertex, the curve staying on its side): ` +
+          `the efficiency is known at those two flows only (${level}); between them the contours say only that it is above or below ${level} (inside or outside the contour)`
+        : `The curve crosses one contour only, the ${level} contour, twice, at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}: ` +
+          `the efficiency is known at those two flows only (${level}); between them the contours say only that it is ${bound(p)}`}, and outside them nothing, no other contour crossing the curve. ` +
     `So no row of the curve has an efficiency: the rows between the crossings are left blank (inside the contour) and those outside have none to read (it is not carried past the crossings), ` +
     `and the CSV writes no efficiency for this curve: the engine has no efficiency, shaft power or best-efficiency point for it. ` +
     `No box is offered to take the middle of the span, ${fmtNum(p.midpoint)} ${u}, as the best-efficiency point: at ${level} it would be the curve's only efficiency row, and the engine reads ` +
@@ -252,16 +303,21 @@ function uncrossedWarning(p: UnreadPeak): string {
   );
 }
 
+const met = (touch?: boolean) => (touch ? "touched" : "crossed");
+const touched = (p: UnreadPeak) => p.fromTouch === true || p.toTouch === true;
+
 /** The short sentence for the source line (and so the revision's note); "" when nothing is unread. */
 export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
   const u = flowUnitText(flowUnit);
   const span = (p: UnreadPeak) =>
-    p.toEnd ? `from ${fmtNum(p.from)} ${u} to the curve's end at ${fmtNum(p.to)} ${u}`
-    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}`
+    p.toEnd ? `from ${fmtNum(p.from)} ${u}${p.fromTouch ? " (touched from inside)" : ""} to the curve's end at ${fmtNum(p.to)} ${u}`
+    : p.fromStart ? `from the curve's start at ${fmtNum(p.from)} ${u} to ${fmtNum(p.to)} ${u}${p.toTouch ? " (touched from inside)" : ""}`
     : `at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`;
   const one = (p: UnreadPeak) =>
     `${keyText(p)} above ${typed(p.level)} % ${span(p)}${
       p.bepMidpoint !== undefined ? (p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %, ${p.bepMidpoint === p.midpoint ? "the BEP" : "not the BEP"}` : "")
+      : p.onStart ? `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (the curve starts on the contour, its first row at ${typed(p.level)} %)`
+      : p.onEnd && !p.taken ? ", no BEP (the curve ends on the contour, its last row the highest)"
       : !p.toEnd && !p.fromStart ? (p.taken ? `, BEP taken at its middle ${fmtNum(p.midpoint)} ${u} at ${typed(p.level)} %` : "")
       : `${p.taken ? `, middle ${fmtNum(p.midpoint)} ${u} written at ${typed(p.level)} %` : ""}, no BEP (peak at or ${p.toEnd ? "past the end" : "before the start"} of the efficiency data)`}`;
   const spans = ps.filter((p) => !p.lone && !p.twice && !p.valley && !p.uncrossed), lone = ps.filter((p) => p.lone), twice = ps.filter((p) => p.twice && !p.at), many = ps.filter((p) => p.at);
@@ -270,8 +326,8 @@ export function peakNote(ps: readonly UnreadPeak[], flowUnit: string): string {
     uncrossed.length ? `no contour crossed, no efficiency written: ${uncrossed.map(keyText).join("; ")}` : "",
     valley.length ? `efficiency blank outside a contour between two of its crossings (read across from the rows either side, overstated): ${valley.map((p) => `${keyText(p)} below ${typed(p.level)} % at ${fmtNum(p.from)}–${fmtNum(p.to)} ${u}`).join("; ")}` : "",
     spans.length ? `peak not traced, efficiency blank inside the innermost contour: ${spans.map(one).join("; ")}` : "",
-    lone.length ? `efficiency at one contour crossing only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
-    twice.length ? `efficiency at two crossings of one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % at ${fmtNum(p.from)} and ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
-    many.length ? `efficiency at crossings of one level only, none written: ${many.map((p) => `${keyText(p)} ${typed(p.level)} % at ${listed(p.at!)} ${u}`).join("; ")}` : "",
+    lone.length ? `efficiency at one contour ${lone.some((p) => p.fromTouch) ? "meeting" : "crossing"} only, none written: ${lone.map((p) => `${keyText(p)} ${typed(p.level)} %${p.fromTouch ? " touched, not crossed," : ""} at ${fmtNum(p.from)} ${u}`).join("; ")}` : "",
+    twice.length ? `efficiency at two ${twice.some(touched) ? "meetings with" : "crossings of"} one contour only, none written: ${twice.map((p) => `${keyText(p)} ${typed(p.level)} % ${touched(p) ? `${met(p.fromTouch)} at ${fmtNum(p.from)} and ${met(p.toTouch)} at` : `at ${fmtNum(p.from)} and`} ${fmtNum(p.to)} ${u}`).join("; ")}` : "",
+    many.length ? `efficiency at ${many.some((p) => p.touchedAt) ? "meetings with" : "crossings of"} one level only, none written: ${many.map((p) => `${keyText(p)} ${typed(p.level)} % at ${listed(p.at!)} ${u}${p.touchedAt ? ` (touched, not crossed, at ${listed1(p.touchedAt)})` : ""}`).join("; ")}` : "",
   ].filter(Boolean).join("; ");
 }
