@@ -16,7 +16,9 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtPressure, fmtQ } from "~/lib/shared/units";
+import { DEFAULT_FLOW_TOLERANCE, type FlowTolerance } from "~/engine";
+import { fmtPctLimit } from "~/engine/quantityText";
 import { fmtDate } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 
@@ -33,6 +35,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
+
+/** The duty flow tolerance as the verdict's rule writes it ("−2.5 %/+12.5 %", engine verdict.ts): never rounded to whole percent beside it. */
+const toleranceText = (t: FlowTolerance | undefined) => {
+  const tol = t ?? DEFAULT_FLOW_TOLERANCE;
+  return `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
+};
 
 export default function SelectionReport() {
   const d = useLoaderData<typeof loader>();
@@ -144,7 +152,7 @@ export default function SelectionReport() {
             </dd>
             <dt className="text-slate-600">Operation</dt>
             <dd>
-              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance −{fmtNum((input.flowTolerance?.minus ?? 0) * 100, 0)} %/+{fmtNum((input.flowTolerance?.plus ?? 0.1) * 100, 0)} %
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance {toleranceText(input.flowTolerance)}
             </dd>
           </dl>
         </div>
