@@ -17,6 +17,7 @@ import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import * as selectionJson from "~/routes/selections.$id.export-json";
+import * as systemPage from "~/routes/systems.$id";
 import { call, makeMember, type TestMember } from "./harness";
 import { importDroopPump } from "./droop-pump";
 import { csvFigures, selectionPages } from "./selection-pages";
@@ -114,5 +115,25 @@ describe("the JSON export", () => {
     const old = await jsonOf(before.id);
     expect("verdict" in old).toBe(false); // old code: verdict null, which reads "no duty point set"
     expect("verdict" in old.result).toBe(false);
+  });
+});
+
+describe("a long title and note with characters outside the BMP, selected through the system page's form", () => {
+  test("are cut at 200 and 2000 characters whole: an emoji at the cut is kept or left out, never stored half (U+FFFD, '?')", async () => {
+    const systemId = await createSystem(v, project, "Long names", boosterInput());
+    const added = await addCandidate(v, systemId, tallowmere, DEFAULT_ADJUSTMENT);
+    if (!added.ok) throw new Error(added.reason);
+    // 199 letters and an emoji (two UTF-16 units, one character) are the 200 characters a title keeps (db/schema.ts varchar(200)).
+    const title = `${"Ω".repeat(199)}😀 and more`;
+    const note = `${"n".repeat(1999)}🚰 and more`;
+    const r = await call(systemPage.action as never, { path: `/systems/${systemId}`, cookie: m.cookie, params: { id: String(systemId) }, form: { intent: "select", candidateId: String(added.id), title, note } });
+    expect(r.status).toBe(302);
+    const id = Number(r.location?.split("/").pop());
+    const [row] = await db().select().from(selections).where(eq(selections.id, id));
+    expect(row.title).toBe(`${"Ω".repeat(199)}😀`); // old code: "ΩΩ…Ω\uFFFD" (the emoji's first half, replaced)
+    expect(row.note).toBe(`${"n".repeat(1999)}🚰`); // old code: "nn…n?"
+    const pages = await selectionPages(m, id);
+    expect(pages.csv[0][2]).toBe(row.title); // the CSV's first line carries the title whole
+    expect(pages.text).toContain(`${"Ω".repeat(199)}😀`);
   });
 });
