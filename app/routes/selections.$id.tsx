@@ -11,6 +11,7 @@ import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
+import { selectionCurrency } from "~/lib/projects/stored-selection";
 import { resultFlowMax } from "~/lib/projects/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
@@ -31,7 +32,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const s = await getSelection(viewer, id);
   const fieldChecks = renderDeep(await checksOfSelection(s), m.user.units);
   // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
-  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks };
+  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks, currency: selectionCurrency(s.frozen) };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
@@ -47,6 +48,7 @@ export default function SelectionReport() {
   const f = d.frozen;
   const sys = d.unitSystem;
   const input = f.system.input;
+  const currency = d.currency;
   const view: WorkbenchView = {
     evaluation: f.systemCurve,
     systemError: null,
@@ -152,7 +154,7 @@ export default function SelectionReport() {
             </dd>
             <dt className="text-slate-600">Operation</dt>
             <dd>
-              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance {toleranceText(input.flowTolerance)}
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} {currency} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance {toleranceText(input.flowTolerance)}
             </dd>
           </dl>
         </div>
@@ -169,7 +171,7 @@ export default function SelectionReport() {
         <CandidateTable view={view} unitSystem={sys} />
       </section>
 
-      <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={f.result.figures?.motor?.currency ?? ""} />
+      <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={currency} />
 
       <section className="panel break-inside-avoid">
         <h2 className="font-semibold">Pipe runs</h2>

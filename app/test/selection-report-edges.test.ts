@@ -18,6 +18,7 @@ import { boosterInput, demoLibrary, viewerOfUser } from "~/lib/projects/test-kit
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import * as selectionJson from "~/routes/selections.$id.export-json";
 import * as systemPage from "~/routes/systems.$id";
+import { workspaceCurrency } from "~/lib/workspaces";
 import { call, makeMember, type TestMember } from "./harness";
 import { importDroopPump } from "./droop-pump";
 import { csvFigures, selectionPages } from "./selection-pages";
@@ -73,9 +74,10 @@ describe("the JSON export", () => {
     const body = await jsonOf(id);
     expect(body.caution).toMatch(/design guidance.*certified data, local codes and a licensed engineer/); // old code: no caution
     const units = String(body.units);
-    for (const u of ["m3/s", "Pa", "W", "kg/m3", "temperatureC °C", "kWh", "rpm", "result.figures.motor.currency"]) expect(units, u).toContain(u);
+    for (const u of ["m3/s", "Pa", "W", "kg/m3", "temperatureC °C", "kWh", "rpm", "money in `currency`"]) expect(units, u).toContain(u);
     expect((body.system as { input: { temperatureC: number } }).input.temperatureC).toBe(20); // control: °C as the units say (defaultSystemInput)
     expect((body.pump as { speed: number }).speed).toBe(2900); // control: rpm as the units say (tallowmere.csv)
+    expect(body.currency).toBe(await workspaceCurrency(m.workspaceId)); // the money's currency, named at the top
   });
 
   test("NPSHa below zero: verdictNpsh says what the report's headline and the CSV's verdict_npsh say", async () => {
@@ -135,5 +137,20 @@ describe("a long title and note with characters outside the BMP, selected throug
     const pages = await selectionPages(m, id);
     expect(pages.csv[0][2]).toBe(row.title); // the CSV's first line carries the title whole
     expect(pages.text).toContain(`${"Ω".repeat(199)}😀`);
+  });
+});
+
+describe("a pump with no operating point (the drooping pump against 41–42 m static, above its 40 m shut-off head)", () => {
+  test("the tariff and the CSV's money columns still name the workspace's currency (no figures carry it then)", async () => {
+    const input: SystemInput = { ...defaultSystemInput(), staticLow: 41, staticHigh: 42, duty: { flow: 36 * M3H, head: 41.5 } };
+    const { id, f } = await select("No operating point", input, DEFAULT_ADJUSTMENT, droop);
+    expect(f.result.operating).toBeNull(); // control
+    expect(f.result.figures).toBeNull(); // control: nothing else holds the currency
+    const currency = await workspaceCurrency(m.workspaceId);
+    expect(currency).toMatch(/^[A-Z]{3}$/); // control
+    const pages = await selectionPages(m, id);
+    expect(pages.text).toContain(`4000 h/year at 0.2 ${currency} per kWh`); // old code: "at 0.2 per kWh" (defaultSystemInput: 4000 h, 0.2 per kWh)
+    expect(csvFigures(pages.csv).get("annual_cost")?.[1]).toBe(currency); // old code: "currency"
+    expect((await jsonOf(id)).currency).toBe(currency);
   });
 });

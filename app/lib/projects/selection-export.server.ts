@@ -1,5 +1,6 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./selections.server";
+import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
 import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, stepVerdict, stepWarnings } from "./energy";
 import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
@@ -20,8 +21,8 @@ export const SELECTION_CAUTION = "Figures are for design guidance; verify agains
 export const SELECTION_JSON_UNITS =
   "Numbers in SI: flow m3/s, head, lengths, diameters and roughness m, pressure Pa, power W, density kg/m3, dynamic viscosity Pa·s, " +
   "kinematic viscosity m2/s, velocity m/s; except where the key names its unit: temperatureC °C, …KWh kWh, tariffPerKWh per kWh, " +
-  "hoursPerYear and hours h; speeds in rpm; efficiencies, ratios, fractions and tolerances as fractions of 1; money in the currency of " +
-  "result.figures.motor.currency; times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units (m³/h, m, mm, kPa, kW).";
+  "hoursPerYear and hours h; speeds in rpm; efficiencies, ratios, fractions and tolerances as fractions of 1; money in `currency` " +
+  "(selections frozen before it was kept: result.figures.motor.currency); times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units (m³/h, m, mm, kPa, kW).";
 
 /**
  * The JSON export: the frozen document as stored (in SI, its texts rendered in SI) under the selection's id, title and
@@ -133,7 +134,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("electrical_input", fig?.motor?.electricalPower ?? null, "W");
   if (basis) add("electrical_input_per_pump", fig?.motor?.electricalPower != null ? fig.motor.electricalPower / basis.n : null, "W");
   add("annual_energy_electrical", fig?.annualEnergyKWh, "kWh");
-  add("annual_cost", fig?.annualCost, fig?.motor?.currency || "currency");
+  add("annual_cost", fig?.annualCost, currencyOf(f));
   // The hours annual_energy_electrical and annual_cost count at the operating point (the system's operating hours), not the duty cycle's.
   add("annual_cost_hours", fig?.motor?.hoursPerYear ?? f.system.input.hoursPerYear, "h/yr");
   add("library", f.pump.library.name, "");
@@ -177,7 +178,7 @@ function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasi
 /** A figure's basis for pumps in parallel or series: per pump, the duty pumps together, or "" where neither applies. */
 const basisOf = (b: PumpsBasis, name: string) => (PER_PUMP_FIGURES.has(name) ? "per pump" : ALL_PUMPS_FIGURES.has(name) ? b.together : "");
 
-const currencyOf = (f: FrozenSelection) => f.result.figures?.motor?.currency || "currency";
+const currencyOf = (f: FrozenSelection) => selectionCurrency(f) || "currency";
 
 /** The duty cycle's totals and the life-cycle cost as figures, with what is missing from them. */
 function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, unit: string) => void) {

@@ -10,6 +10,7 @@ import { readStoredSelection, type FrozenSelection } from "./stored-selection";
 import { problemErrors, problemsSummary, type DocProblem } from "./stored-doc";
 import { ownCandidate, ownRow, storedAdjustmentRefusal, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
+import { workspaceCurrency } from "../workspaces";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
@@ -64,6 +65,8 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
     result: cand.result,
     energy: cand.energy,
     flowMax: bench.flowMax,
+    // The tariff's and the costs' currency, kept even where the pump has no operating point (no figures carry it then).
+    currency: await workspaceCurrency(viewer.workspace.id),
   };
   const [{ id }] = await db()
     .insert(selections)
