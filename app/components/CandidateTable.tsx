@@ -82,15 +82,16 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       const n = c.result?.npsh;
       const bad = n && (n.status === "cavitation-risk" || n.status === "low-margin");
       const ratios = npshBandRange(c.result?.band, n);
+      const unjudged = n && n.status === "unknown" ? npshUnjudgedText(n) : null;
       return (
         <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
-          {ratios ?? (n && n.status !== "unknown" ? null : "—")}
+          {ratios ?? (n && (n.status !== "unknown" || unjudged) ? null : "—")}
           {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}>{ratios ? " — " : ""}{npshLowestText(unitSystem, n)} ({n.status})</span> : null}
-          {n && n.status === "unknown" && npshUnjudgedText(n) ? (
+          {n && unjudged ? (
             <span className="font-semibold text-duty-ink">
-              {" — "}
+              {ratios ? " — " : ""}
               {n.at ? `${npshLowestText(unitSystem, n)} among the judged; ` : ""}
-              {npshUnjudgedText(n)} (unknown)
+              {unjudged} (unknown)
             </span>
           ) : null}
         </span>
