@@ -21,7 +21,7 @@ import * as systemPage from "~/routes/systems.$id";
 import { workspaceCurrency } from "~/lib/workspaces";
 import { call, makeMember, type TestMember } from "./harness";
 import { importDroopPump } from "./droop-pump";
-import { csvFigures, selectionPages } from "./selection-pages";
+import { csvFigures, figureCell, selectionPages } from "./selection-pages";
 
 afterAll(() => closeDb());
 
@@ -112,7 +112,11 @@ describe("the JSON export", () => {
     delete frozen.result.verdict; // as frozen before verdicts were kept
     await db().update(selections).set({ frozenJson: JSON.stringify(frozen) }).where(eq(selections.id, before.id));
     const pages = await selectionPages(m, before.id);
-    expect(pages.text).toContain("no verdict was frozen with this report"); // control
+    expect(pages.text).toContain("no verdict was frozen with this report"); // control: the headline
+    // The figures table's Verdict row and the chart's label say the same, never "no duty point set" (the duty is 40 m³/h at 38 m).
+    expect(figureCell(pages.html, "Verdict")).toMatch(/^not judged: selected before Dutymark judged candidates/); // old code: "no duty point set: nothing to judge"
+    expect(pages.text).not.toMatch(/no duty point set|no duty to judge/); // old code: both (table and chart label)
+    expect(pages.text).toMatch(/ — not judged( — |$)/); // the chart's label
     expect(csvFigures(pages.csv).get("verdict")?.[0]).toBe("not judged (selected before verdicts existed)"); // control
     const old = await jsonOf(before.id);
     expect("verdict" in old).toBe(false); // old code: verdict null, which reads "no duty point set"
