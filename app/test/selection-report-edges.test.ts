@@ -21,7 +21,7 @@ import * as systemPage from "~/routes/systems.$id";
 import { workspaceCurrency } from "~/lib/workspaces";
 import { call, makeMember, type TestMember } from "./harness";
 import { importDroopPump } from "./droop-pump";
-import { csvFigures, figureCell, selectionPages } from "./selection-pages";
+import { csvFigures, figureCell, selectionPages, textOf } from "./selection-pages";
 
 afterAll(() => closeDb());
 
@@ -156,5 +156,37 @@ describe("a pump with no operating point (the drooping pump against 41–42 m st
     expect(pages.text).toContain(`4000 h/year at 0.2 ${currency} per kWh`); // old code: "at 0.2 per kWh" (defaultSystemInput: 4000 h, 0.2 per kWh)
     expect(csvFigures(pages.csv).get("annual_cost")?.[1]).toBe(currency); // old code: "currency"
     expect((await jsonOf(id)).currency).toBe(currency);
+  });
+});
+
+/** A booster selection frozen now, then its frozen document changed by `change` in MariaDB: as frozen before a rule was kept. */
+async function frozenBefore(name: string, change: (frozen: { result: Record<string, unknown> & { npsh?: Record<string, unknown> } }) => void) {
+  const { id } = await select(name, boosterInput());
+  const [row] = await db().select().from(selections).where(eq(selections.id, id));
+  const frozen = JSON.parse(row.frozenJson);
+  change(frozen);
+  await db().update(selections).set({ frozenJson: JSON.stringify(frozen) }).where(eq(selections.id, id));
+  return selectionPages(m, id);
+}
+const methods = (html: string) => textOf(/<h2[^>]*>Methods and assumptions<\/h2>([\s\S]*?)<\/section>/.exec(html)?.[1] ?? "");
+
+describe("Methods and assumptions of a selection frozen before today's rules say what it was judged on", () => {
+  test("today's: the corners and the demanding edge (control)", async () => {
+    const said = methods((await frozenBefore("Methods now", () => {})).html);
+    expect(said).toContain("judged at the design point and at each corner of the band");
+    expect(said).toContain("Verdict: judged at the band's demanding edge");
+  });
+  test("before the corners were kept (npsh.judgedAt absent): the band's two edges, as its table reads them", async () => {
+    const said = methods((await frozenBefore("Methods edges", (f) => { delete f.result.npsh!.judgedAt; })).html);
+    expect(said).toContain("judged at the design point and at the band's two edges (selected before its four corners were judged)"); // old code: "…at each corner of the band"
+    expect(said).not.toContain("at each corner of the band");
+  });
+  test("before NPSH over the band and verdicts (npsh and verdict absent): the design point only, and no verdict", async () => {
+    const pages = await frozenBefore("Methods before", (f) => { delete f.result.npsh; delete f.result.verdict; });
+    expect(pages.text).toContain("no verdict was frozen with this report"); // control: the headline
+    const said = methods(pages.html);
+    expect(said).toContain("judged at the design point only (selected before NPSH was judged over the band)"); // old code: "…at each corner of the band …, the lowest deciding"
+    expect(said).toContain("Verdict: none was frozen with this selection"); // old code: "Verdict: judged at the band's demanding edge …"
+    expect(said).not.toContain("demanding edge");
   });
 });
