@@ -35,6 +35,8 @@ export type FrozenSelection = {
   /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
   energy?: CandidateEnergy | null;
   flowMax: number;
+  /** The workspace's currency when frozen (selections frozen before it was kept have none: `selectionCurrency`). */
+  currency?: string;
 };
 
 const num = v.pipe(v.number(), v.finite());
