@@ -2,7 +2,8 @@
 // liquid's properties (IAPWS for water; as entered for a custom liquid), the ANSI/HI 9.6.7 viscosity status frozen with
 // the result (corrected with B and the factors, no correction needed, outside the method, not correctable, not checked,
 // or not recorded in a selection frozen before it), pumps in parallel or series and what each figure is for, and where
-// the curve data came from (a traced curve's source and caution). Frozen text is already in the reader's units.
+// the curve data came from (a traced curve's source and caution), how NPSH and the verdict were judged (a selection frozen
+// before the band's corners, NPSH over the band or verdicts says what it was judged on). Frozen text is already in the reader's units.
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION } from "~/engine";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { pumpsBasis } from "~/lib/projects/power-basis";
@@ -57,6 +58,26 @@ export function curveDataLine(f: FrozenSelection): string {
   return `Curve data frozen from ${lib.name} revision ${lib.revision} at ${fmtUtc(f.frozenAt)}; later library changes do not alter this report.${traced}`;
 }
 
+/**
+ * The POR and NPSH rule as this selection was judged: at the design point and each corner of the band; in a selection frozen
+ * before the corners were kept, at the band's two edges; before NPSH was judged over the band, at the design point only.
+ */
+export function npshMethodLine(f: FrozenSelection): string {
+  const n = f.result.npsh;
+  const where = !n
+    ? "judged at the design point only (selected before NPSH was judged over the band)"
+    : !n.judgedAt
+      ? "judged at the design point and at the band's two edges (selected before its four corners were judged), the lowest deciding"
+      : "judged at the design point and at each corner of the band (least and most lift × new and aged pipe; suction level as entered at each), the lowest deciding";
+  return `Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5), ${where}; NPSHa at or below zero is a cavitation risk whatever the pump.`;
+}
+
+/** How the verdict is judged; a selection frozen before verdicts has none, said so (the headline says the same). */
+export function verdictMethodLine(f: FrozenSelection): string {
+  if (f.result.verdict === undefined) return "Verdict: none was frozen with this selection (selected before Dutymark judged candidates); its figures are at the design operating point.";
+  return "Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.";
+}
+
 /** Every line of the section, in order. */
 export function methodLines(f: FrozenSelection, units: UnitChoice): string[] {
   return [
@@ -68,8 +89,8 @@ export function methodLines(f: FrozenSelection, units: UnitChoice): string[] {
     viscosityLine(f),
     "Speed changes and impeller trims: affinity laws (Q ∝ N, H ∝ N², P ∝ N³; trim Q ∝ D, H ∝ D², approximate).",
     arrangementLine(f),
-    "Preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3); NPSH margin ratio as set above (ANSI/HI 9.6.1 guidance 1.1–2.5), judged at the design point and at each corner of the band (least and most lift × new and aged pipe; suction level as entered at each), the lowest deciding; NPSHa at or below zero is a cavitation risk whatever the pump.",
-    "Verdict: judged at the band's demanding edge (most lift, aged pipe), where the pump delivers least; meets within the duty flow tolerance, short below it, oversized above it; outside the catalogue when a trim or speed goes beyond what the model publishes (speed 30–100 % of rated unless the model says otherwise); speed and trim solved against the system's head at the duty flow at that edge.",
+    npshMethodLine(f),
+    verdictMethodLine(f),
     `Motor: smallest IEC 60034 standard rating (from memory) whose rating × service factor covers the largest shaft power on the curve; non-overloading only where that power is known at every flow the pump can run at (run-out, one parallel pump alone), else not judged; a duty-cycle step above it is warned of; efficiency by IE class after IEC 60034-30-1 (from memory; from ${fmtQ(units, "power", 120)}, the lower entry between sizes, warned); drive 97 % when a speed is set (common practice); energy from the electrical input.`,
     curveDataLine(f),
   ].filter((l): l is string => l !== null);

@@ -67,3 +67,16 @@ describe("Crossing of a dead-head result (static head equal to the shut-off head
     expect(cells(r)["Crossing"]).toBe("one crossing");
   });
 });
+
+describe("NPSH margin over the band of a curve without NPSHr (nothing judged anywhere: unknown)", () => {
+  const bare = evaluateCandidate(defaultSystemInput(), { points: points.map((p) => ({ ...p, npshr: null })), speed: 2900, impellerDiameter: null }, DEFAULT_ADJUSTMENT);
+  it("says what was not judged and why, once, without a dash standing for a value before it (it read '— — not judged at …')", () => {
+    expect(bare.npsh.status).toBe("unknown"); // control
+    const cell = cells(bare)["NPSH margin over the band"];
+    expect(cell).toMatch(/^not judged at design point \(no NPSHr at that flow\); least lift, new pipe \(no NPSHr at that flow\); .* \(unknown\)$/);
+    expect(cell).not.toMatch(/— —/);
+  });
+  it("the flip: with NPSHr the ratios lead and the dash separates them from the lowest", () => {
+    expect(cells(evaluate(defaultSystemInput()))["NPSH margin over the band"]).toMatch(/^\d+\.\d+( – \d+\.\d+)? — lowest \d+\.\d+ at .* \(ok\)$/);
+  });
+});

@@ -25,6 +25,12 @@ export const startNoteOf = (r: Cand["result"] | null | undefined, units: UnitCho
 
 type Cand = WorkbenchView["candidates"][number];
 
+/**
+ * A result with no verdict kept (`verdict` absent: a selection frozen before Dutymark judged candidates), in the words the
+ * report's headline uses; never read as "no duty point set", which is a verdict of null.
+ */
+export const NOT_JUDGED = "not judged: selected before Dutymark judged candidates, no verdict was frozen";
+
 export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeries | null {
   const r = c.result;
   if (!r) return null;
@@ -34,7 +40,7 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}` : "no duty to judge"}`,
+    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}` : r.verdict === undefined ? "not judged" : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),

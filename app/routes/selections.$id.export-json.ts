@@ -1,6 +1,6 @@
 import type { Route } from "./+types/selections.$id.export-json";
 import { requireMember } from "~/lib/auth/guards.server";
-import { getSelection } from "~/lib/projects";
+import { getSelection, selectionJson } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { renderDeep, renderUnits, SI_UNITS } from "~/lib/shared/units";
@@ -11,8 +11,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   try {
     const s = await getSelection(viewerOf(m), readId(params.id));
-    const frozen = renderDeep(s.frozen, SI_UNITS); // text written out in SI, like the numbers
-    const body = { id: s.id, title: renderUnits(s.title, SI_UNITS), note: s.note, createdAt: s.createdAt.toISOString(), units: "SI (m3/s, m, Pa, W, kg/m3)", verdict: frozen.result.verdict ?? null, ...frozen };
+    // Text written out in SI, like the numbers; with the caution, the units and the verdict as the report's headline reads it.
+    const body = selectionJson({ ...s, title: renderUnits(s.title, SI_UNITS) }, renderDeep(s.frozen, SI_UNITS));
     return new Response(JSON.stringify(body, null, 2), {
       headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.json"` },
     });

@@ -11,12 +11,15 @@ import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
+import { selectionCurrency } from "~/lib/projects/stored-selection";
 import { resultFlowMax } from "~/lib/projects/hydraulics";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPressure, fmtQ } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtPressure, fmtQ } from "~/lib/shared/units";
+import { DEFAULT_FLOW_TOLERANCE, type FlowTolerance } from "~/engine";
+import { fmtPctLimit } from "~/engine/quantityText";
 import { fmtDate } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 
@@ -29,16 +32,23 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const s = await getSelection(viewer, id);
   const fieldChecks = renderDeep(await checksOfSelection(s), m.user.units);
   // Text in the frozen document (notes, verdict reasons, warnings) is rendered in the reader's units; stored SI text shows as it is.
-  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks };
+  return { id: s.id, title: renderUnits(s.title, m.user.units), note: s.note, createdAt: s.createdAt.toISOString(), frozen: renderDeep(s.frozen, m.user.units), unitSystem: m.user.units, workspace: m.workspace.name, fieldChecks, currency: selectionCurrency(s.frozen) };
 }
 
 const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, string>;
+
+/** The duty flow tolerance as the verdict's rule writes it ("−2.5 %/+12.5 %", engine verdict.ts): never rounded to whole percent beside it. */
+const toleranceText = (t: FlowTolerance | undefined) => {
+  const tol = t ?? DEFAULT_FLOW_TOLERANCE;
+  return `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
+};
 
 export default function SelectionReport() {
   const d = useLoaderData<typeof loader>();
   const f = d.frozen;
   const sys = d.unitSystem;
   const input = f.system.input;
+  const currency = d.currency;
   const view: WorkbenchView = {
     evaluation: f.systemCurve,
     systemError: null,
@@ -144,7 +154,7 @@ export default function SelectionReport() {
             </dd>
             <dt className="text-slate-600">Operation</dt>
             <dd>
-              {input.hoursPerYear} h/year at {input.tariffPerKWh} {f.result.figures?.motor?.currency || ""} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance −{fmtNum((input.flowTolerance?.minus ?? 0) * 100, 0)} %/+{fmtNum((input.flowTolerance?.plus ?? 0.1) * 100, 0)} %
+              {input.hoursPerYear} h/year at {input.tariffPerKWh} {currency} per kWh; NPSH margin wanted {input.npshMargin}; duty flow tolerance {toleranceText(input.flowTolerance)}
             </dd>
           </dl>
         </div>
@@ -161,7 +171,7 @@ export default function SelectionReport() {
         <CandidateTable view={view} unitSystem={sys} />
       </section>
 
-      <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={f.result.figures?.motor?.currency ?? ""} />
+      <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={currency} />
 
       <section className="panel break-inside-avoid">
         <h2 className="font-semibold">Pipe runs</h2>

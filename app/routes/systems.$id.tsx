@@ -93,7 +93,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     case "select": {
       const candidateId = formId(form, "candidateId");
-      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? "").slice(0, 200), String(form.get("note") ?? "").slice(0, 2000), sys);
+      const sid = await selectCandidate(viewer, candidateId, String(form.get("title") ?? ""), String(form.get("note") ?? ""), sys); // cut to their limits by the service
       throw redirect(`/selections/${sid}`);
     }
   }

@@ -1,5 +1,6 @@
 // Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
 import type { FrozenSelection } from "./selections.server";
+import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
 import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, stepVerdict, stepWarnings } from "./energy";
 import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
@@ -9,6 +10,40 @@ import { verdictStartNote } from "./verdict-start";
 import { inSI } from "~/engine/quantityText";
 
 const row = (xs: unknown[]) => xs;
+
+/** The caution every export of a selection carries (the report shows the same above and below its figures). */
+export const SELECTION_CAUTION = "Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer.";
+
+/**
+ * The units of the JSON export, named for every kind of number it holds: SI base units, except where a key names its
+ * unit; texts (verdict, reasons, warnings) rendered with the SI preset's display units, as the CSV's are.
+ */
+export const SELECTION_JSON_UNITS =
+  "Numbers in SI: flow m3/s, head, lengths, diameters and roughness m, pressure Pa, power W, density kg/m3, dynamic viscosity Pa·s, " +
+  "kinematic viscosity m2/s, velocity m/s; except where the key names its unit: temperatureC °C, …KWh kWh, tariffPerKWh per kWh, " +
+  "hoursPerYear and hours h; speeds in rpm; efficiencies, ratios, fractions and tolerances as fractions of 1; money in `currency` " +
+  "(selections frozen before it was kept: result.figures.motor.currency); times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units (m³/h, m, mm, kPa, kW).";
+
+/**
+ * The JSON export: the frozen document as stored (in SI, its texts rendered in SI) under the selection's id, title and
+ * note, with the caution and the units it is in, and the verdict as the report's headline reads it — `verdict` (absent
+ * where the selection was frozen before verdicts existed; null where no duty point was set), and what NPSH and a staged
+ * start say against it (`verdictNpsh`, `verdictStart`, as the CSV's `verdict_npsh` and `verdict_start`; null: nothing).
+ */
+export function selectionJson(s: { id: number; title: string; note: string; createdAt: Date }, frozen: FrozenSelection) {
+  const verdict = frozen.result.verdict;
+  const npsh = verdictNpshNote(verdict, frozen.result.npsh);
+  const start = verdictStartNote(verdict, frozen.result.stagedStart);
+  return {
+    id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(),
+    caution: SELECTION_CAUTION,
+    units: SELECTION_JSON_UNITS,
+    verdict,
+    verdictNpsh: npsh ? inSI(npsh) : null,
+    verdictStart: start ? inSI(start) : null,
+    ...frozen,
+  };
+}
 /**
  * A margin ratio NPSHa / NPSHr as the CSV writes it: blank where NPSHa ≤ 0 (m), where a ratio means nothing and NPSHa
  * decides (a cavitation risk whatever the pump), as every text surface reads it (candidate-judgement.ts `npshOverBand`).
@@ -27,7 +62,7 @@ const ratioCell = (ratio: number | null | undefined, available: number | null | 
 export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
   const lines: unknown[][] = [];
   lines.push(row(["# Dutymark selection export", `DM-${String(id).padStart(5, "0")}`, title]));
-  lines.push(row(["# Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer."]));
+  lines.push(row([`# ${SELECTION_CAUTION}`]));
   const traced = f.pump.library.traced;
   if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
   const basis = pumpsBasis(f.adjustment);
@@ -99,7 +134,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("electrical_input", fig?.motor?.electricalPower ?? null, "W");
   if (basis) add("electrical_input_per_pump", fig?.motor?.electricalPower != null ? fig.motor.electricalPower / basis.n : null, "W");
   add("annual_energy_electrical", fig?.annualEnergyKWh, "kWh");
-  add("annual_cost", fig?.annualCost, fig?.motor?.currency || "currency");
+  add("annual_cost", fig?.annualCost, currencyOf(f));
   // The hours annual_energy_electrical and annual_cost count at the operating point (the system's operating hours), not the duty cycle's.
   add("annual_cost_hours", fig?.motor?.hoursPerYear ?? f.system.input.hoursPerYear, "h/yr");
   add("library", f.pump.library.name, "");
@@ -143,7 +178,7 @@ function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasi
 /** A figure's basis for pumps in parallel or series: per pump, the duty pumps together, or "" where neither applies. */
 const basisOf = (b: PumpsBasis, name: string) => (PER_PUMP_FIGURES.has(name) ? "per pump" : ALL_PUMPS_FIGURES.has(name) ? b.together : "");
 
-const currencyOf = (f: FrozenSelection) => f.result.figures?.motor?.currency || "currency";
+const currencyOf = (f: FrozenSelection) => selectionCurrency(f) || "currency";
 
 /** The duty cycle's totals and the life-cycle cost as figures, with what is missing from them. */
 function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, unit: string) => void) {

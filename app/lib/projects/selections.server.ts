@@ -10,10 +10,21 @@ import { readStoredSelection, type FrozenSelection } from "./stored-selection";
 import { problemErrors, problemsSummary, type DocProblem } from "./stored-doc";
 import { ownCandidate, ownRow, storedAdjustmentRefusal, systemWorkbench } from "./projects.server";
 import { selectionTitle, type UnitChoice } from "./labels";
+import { workspaceCurrency } from "../workspaces";
 
 export const SELECTION_FORMAT = "dutymark-selection/1";
 
-/** Freezes a candidate: system inputs, curve points, library revision, adjustment and every result (title: `selectionTitle`). */
+/** The longest title and note a selection keeps, in characters (Unicode code points, as MariaDB's `varchar` counts them: db/schema.ts). */
+export const SELECTION_TITLE_MAX = 200;
+export const SELECTION_NOTE_MAX = 2000;
+
+/** `text` cut to `max` characters at a code point, never between the two halves of a surrogate pair (which would be stored as U+FFFD or "?"). */
+const clip = (text: string, max: number) => (text.length <= max ? text : Array.from(text).slice(0, max).join(""));
+
+/**
+ * Freezes a candidate: system inputs, curve points, library revision, adjustment and every result (title: `selectionTitle`).
+ * The title and note as typed, cut to `SELECTION_TITLE_MAX` and `SELECTION_NOTE_MAX` characters.
+ */
 export async function selectCandidate(viewer: Viewer, candidateId: number, title: string, note: string, units?: UnitChoice) {
   const c = await ownCandidate(viewer, candidateId);
   const bench = await systemWorkbench(viewer, c.systemId);
@@ -54,6 +65,8 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
     result: cand.result,
     energy: cand.energy,
     flowMax: bench.flowMax,
+    // The tariff's and the costs' currency, kept even where the pump has no operating point (no figures carry it then).
+    currency: await workspaceCurrency(viewer.workspace.id),
   };
   const [{ id }] = await db()
     .insert(selections)
@@ -63,8 +76,8 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       workspaceId: viewer.workspace.id,
       curveSetId: c.curveSetId,
       revisionId: rev?.revisionId ?? null,
-      title: selectionTitle(title, cand.label, units),
-      note,
+      title: clip(selectionTitle(title, cand.label, units), SELECTION_TITLE_MAX),
+      note: clip(note, SELECTION_NOTE_MAX),
       frozenJson: JSON.stringify(frozen),
       createdBy: viewer.userId,
     })

@@ -35,6 +35,8 @@ export type FrozenSelection = {
   /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
   energy?: CandidateEnergy | null;
   flowMax: number;
+  /** The workspace's currency when frozen (selections frozen before it was kept have none: `selectionCurrency`). */
+  currency?: string;
 };
 
 const num = v.pipe(v.number(), v.finite());
@@ -133,6 +135,8 @@ export const FrozenSelectionSchema = obj({
   /** Absent in selections frozen before load profiles. */
   energy: v.nullish(Energy),
   flowMax: num,
+  /** The workspace's currency when frozen (ISO 4217); absent in selections frozen before it was kept, where `result.figures.motor.currency` holds it if the pump had an operating point. */
+  currency: v.optional(str),
 });
 
 const LABELS: Record<string, string> = {
@@ -145,7 +149,7 @@ const LABELS: Record<string, string> = {
   reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input",
-  judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions",
+  judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
 const ITEMS: Record<string, string> = {
@@ -154,6 +158,9 @@ const ITEMS: Record<string, string> = {
 };
 const QUANTITIES: Record<string, Quantity> = { ...INPUT_QUANTITIES, motorRating: "power", impellerDiameter: "diameter" };
 const WORDS: DocWords = { whole: "the frozen selection", labels: LABELS, items: ITEMS, quantities: QUANTITIES };
+
+/** The currency of a selection's tariff and costs: the figures' where the pump had an operating point, else the one frozen with it; "" when neither was kept. */
+export const selectionCurrency = (f: FrozenSelection): string => f.result.figures?.motor?.currency || f.currency || "";
 
 export type StoredSelection = { ok: true; frozen: FrozenSelection } | { ok: false; problems: DocProblem[] };
 
