@@ -10,6 +10,7 @@ import { verdictLabel, type Verdict } from "~/engine";
 import { ListTable } from "./ListTable";
 import { verdictNpshNote, verdictNpshShort } from "~/lib/projects/verdict-npsh";
 import { STAGED_START_RULE, verdictStartNote, verdictStartShort } from "~/lib/projects/verdict-start";
+import { MOTOR_RULE, verdictMotorNote, verdictMotorShort } from "~/lib/projects/verdict-motor";
 
 /** What NPSH says against a candidate's verdict, in the reader's units, for `VerdictView`'s `npshNote` (null: nothing). */
 export const npshNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
@@ -20,6 +21,12 @@ export const npshNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoi
 /** What starting pumps in parallel one after another says against a candidate's verdict, in the reader's units, for `VerdictView`'s `startNote`. */
 export const startNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
   const note = r ? verdictStartNote(r.verdict, r.stagedStart) : null;
+  return note ? renderUnits(note, units) : null;
+};
+
+/** What the motor check says against a candidate's verdict, in the reader's units, for `VerdictView`'s `motorNote`. */
+export const motorNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
+  const note = r ? verdictMotorNote(r.verdict, r.figures) : null;
   return note ? renderUnits(note, units) : null;
 };
 
@@ -40,7 +47,7 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}` : r.verdict === undefined ? "not judged" : "no duty to judge"}`,
+    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}${verdictMotorShort(r.verdict, r.figures)}` : r.verdict === undefined ? "not judged" : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
@@ -157,12 +164,13 @@ const VERDICT_TONE: Record<Verdict["status"], string> = {
 /**
  * The verdict as a badge (status), with its rule and reasons below unless `compact`. `npshNote`: what NPSH says against it
  * (verdict-npsh.ts `verdictNpshNote`, rendered in the reader's units), on the badge's line, with the NPSH rule. `startNote`:
- * what starting pumps in parallel one after another says against it (verdict-start.ts `verdictStartNote`), on the same line.
+ * what starting pumps in parallel one after another says against it (verdict-start.ts `verdictStartNote`), on the same line;
+ * `motorNote`: what the motor check says against it (verdict-motor.ts `verdictMotorNote`), on the same line.
  */
-export function VerdictView({ verdict, compact, testId, npshNote, npshRule, startNote }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string; npshNote?: string | null; npshRule?: string | null; startNote?: string | null }) {
+export function VerdictView({ verdict, compact, testId, npshNote, npshRule, startNote, motorNote }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string; npshNote?: string | null; npshRule?: string | null; startNote?: string | null; motorNote?: string | null }) {
   if (!verdict) return <span className="text-slate-600" data-testid={testId} data-status="none">no duty point set: nothing to judge</span>;
   return (
-    <div data-testid={testId} data-status={verdict.status} data-npsh={npshNote ? "against" : undefined} data-start={startNote ? "against" : undefined}>
+    <div data-testid={testId} data-status={verdict.status} data-npsh={npshNote ? "against" : undefined} data-start={startNote ? "against" : undefined} data-motor={motorNote ? "against" : undefined}>
       <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-semibold ${VERDICT_TONE[verdict.status]}`}>{verdictLabel(verdict.status)}</span>
       {npshNote ? (
         <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-npsh` : undefined} title={npshRule ?? undefined}>
@@ -174,6 +182,12 @@ export function VerdictView({ verdict, compact, testId, npshNote, npshRule, star
         <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-start` : undefined} title={STAGED_START_RULE}>
           {" — "}
           {startNote}
+        </span>
+      ) : null}
+      {motorNote ? (
+        <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-motor` : undefined} title={MOTOR_RULE}>
+          {" — "}
+          {motorNote}
         </span>
       ) : null}
       {compact ? null : (

@@ -7,6 +7,7 @@ import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type Pump
 import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
+import { verdictMotorNote } from "./verdict-motor";
 import { inSI } from "~/engine/quantityText";
 
 const row = (xs: unknown[]) => xs;
@@ -28,12 +29,14 @@ export const SELECTION_JSON_UNITS =
  * The JSON export: the frozen document as stored (in SI, its texts rendered in SI) under the selection's id, title and
  * note, with the caution and the units it is in, and the verdict as the report's headline reads it — `verdict` (absent
  * where the selection was frozen before verdicts existed; null where no duty point was set), and what NPSH and a staged
- * start say against it (`verdictNpsh`, `verdictStart`, as the CSV's `verdict_npsh` and `verdict_start`; null: nothing).
+ * start and the motor check say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`, as the CSV's `verdict_npsh`,
+ * `verdict_start` and `verdict_motor`; null: nothing).
  */
 export function selectionJson(s: { id: number; title: string; note: string; createdAt: Date }, frozen: FrozenSelection) {
   const verdict = frozen.result.verdict;
   const npsh = verdictNpshNote(verdict, frozen.result.npsh);
   const start = verdictStartNote(verdict, frozen.result.stagedStart);
+  const motor = verdictMotorNote(verdict, frozen.result.figures);
   return {
     id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(),
     caution: SELECTION_CAUTION,
@@ -41,6 +44,7 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
     verdict,
     verdictNpsh: npsh ? inSI(npsh) : null,
     verdictStart: start ? inSI(start) : null,
+    verdictMotor: motor ? inSI(motor) : null,
     ...frozen,
   };
 }
@@ -99,6 +103,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("verdict_npsh", (() => { const n = verdictNpshNote(verdict, f.result.npsh); return n ? inSI(n) : null; })(), "");
   // What starting pumps in parallel one after another says against the verdict, as on the report's verdict line.
   add("verdict_start", (() => { const n = verdictStartNote(verdict, f.result.stagedStart); return n ? inSI(n) : null; })(), "");
+  // What the motor check says against the verdict (overloaded at the operating point, or can overload), as on the report's verdict line.
+  add("verdict_motor", (() => { const n = verdictMotorNote(verdict, f.result.figures); return n ? inSI(n) : null; })(), "");
   add("verdict_rule", verdict?.rule, "");
   (verdict?.reasons ?? []).forEach((r, i) => add(`verdict_reason_${i + 1}`, r, ""));
   add("verdict_edge", verdict?.edge, "");

@@ -4,6 +4,7 @@ import type { CandidateEnergy } from "./energy";
 import type { DocProblem } from "./stored-doc";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
+import { verdictMotorNote } from "./verdict-motor";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
 /**
@@ -44,7 +45,8 @@ const ratioWhere = (ratio: number | null, available: number | null | undefined) 
  * The read API's view (GET /api/v1/systems/:id, POST …/preview): the workbench view with each candidate's `result.verdictNpsh`,
  * what NPSH over the band says against the verdict on its line (verdict-npsh.ts, as the search API and every page showing the
  * verdict), its `result.verdictStart`, what starting pumps in parallel one after another says against it on the same line
- * (verdict-start.ts), with `result.stagedStart` (the numbers behind it, documented, [] where none), and no NPSH margin ratio
+ * (verdict-start.ts), with `result.stagedStart` (the numbers behind it, documented, [] where none), its `result.verdictMotor`,
+ * what the motor check says against it (verdict-motor.ts: overloaded at the operating point, or can overload), and no NPSH margin ratio
  * where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
  */
 export function workbenchApiView(view: WorkbenchView) {
@@ -59,6 +61,7 @@ export function workbenchApiView(view: WorkbenchView) {
           ...r,
           verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
           verdictStart: verdictStartNote(r.verdict, r.stagedStart),
+          verdictMotor: verdictMotorNote(r.verdict, r.figures),
           stagedStart: r.stagedStart ?? [],
           figures: r.figures ? { ...r.figures, npshMarginRatio: ratioWhere(r.figures.npshMarginRatio, r.figures.npshAvailable) } : null,
           band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioWhere(b.npshMarginRatio, b.npshAvailable) })),
