@@ -148,8 +148,8 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
 
 /**
  * The system's evaluation and the verdicts per system input: both are pure functions of the system
- * document (and, for a verdict, the immutable curve set and the method), so repeat views and filter
- * changes of one system reuse them. Keyed by the stored input JSON; a saved change is a new key.
+ * document (and, for a verdict, the immutable curve set, the method and the arrangement), so repeat views and filter
+ * changes of one system reuse them. Keyed by the stored input JSON and the arrangement; a saved change is a new key.
  * Least recently used dropped first.
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
@@ -207,7 +207,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
-    work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson, system.input);
+    // Kept per system input and arrangement: each arrangement's verdicts one LRU entry, so trying many stays bounded.
+    work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson + arrangementKey(arrangement), system.input);
   } catch (e) {
     // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
     // user's to fix, not a server fault: the page says why.
