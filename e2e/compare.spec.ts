@@ -127,4 +127,22 @@ test.describe("without JavaScript", () => {
     expect(chosen).toMatch(/^Add .+ as a candidate$/);
     await expect(compared.locator("thead th").nth(1)).toContainText(chosen!.replace(/^Add (\S+).*$/, "$1"));
   });
+
+  test("Without JavaScript an engineer searches for two pumps in parallel with a standby and adds one so", async ({ page }) => {
+    await signIn(page, "engineer@kestrel.example");
+    const { systemPath } = await newSystemWithDuty(page, "Two in parallel");
+
+    await page.goto(`${systemPath}/search`);
+    await page.getByLabel("How the pumps run").selectOption("parallel");
+    await page.getByLabel(/^Duty pumps/).fill("2");
+    await page.getByLabel(/^Standby/).fill("1");
+    await page.getByRole("button", { name: "Search" }).click(); // a plain GET form
+    await expect(page).toHaveURL(/arrangement=parallel&pumps=2&standby=1/);
+    await expect(page.getByTestId("search-arrangement-rule")).toContainText("Searched for 2 duty pumps in parallel + 1 standby");
+    const first = page.getByRole("table", { name: "Ranked pumps" }).locator("tbody tr").first();
+    await expect(first.locator("[data-testid^=search-arrangement-]")).toContainText("2 duty pumps in parallel + 1 standby: together");
+    await first.getByRole("button", { name: /^Add / }).click();
+    await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
+    await expect(page.getByRole("table", { name: "Candidates compared" })).toContainText("2 in parallel + 1 standby");
+  });
 });

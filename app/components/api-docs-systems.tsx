@@ -1,6 +1,7 @@
 // The /api page's section on the systems read API (GET /api/v1/systems/:id and …/search).
 import { DocTable } from "./DocTable";
 import { SEARCH_FILL_JUDGED } from "~/lib/projects/search-fill";
+import { SEARCH_DEFAULT_PUMPS, SEARCH_MAX_PUMPS, SEARCH_MIN_PUMPS } from "~/lib/projects/search-arrangement";
 
 const VERDICTS: [string, string][] = [
   ["meets", "The operating flow is within the duty's tolerance (by default −0 % / +10 % of the duty flow; settable per system)."],
@@ -25,13 +26,13 @@ const SEARCH_FIELDS: [string, string][] = [
   ["modelId, curveSetId", "ids of the pump model and of the published curve that was searched"],
   ["library", "name of the library the curve comes from"],
   ["curve", "the published curve: speed (rpm) and impellerDiameter (m)"],
-  ["adjustment", "the pump as its verdict judged it (as the candidates table evaluates it): kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio, solved to deliver the duty flow against the system's head there at the band's demanding edge); speed (rpm) and diameter (m) after the adjustment; note (how the ratio was found, in words)"],
+  ["adjustment", "the pump as its verdict judged it (as the candidates table evaluates it): kind: none (as published), speed (affinity laws) or trim (approximate); ratio (speed or diameter ratio, solved to deliver the duty flow against the system's head there at the band's demanding edge); speed (rpm) and diameter (m) after the adjustment; note (how the ratio was found, in words); arrangement (single, parallel or series), dutyPumps and standbyPumps: the arrangement the verdict judged, as asked (one pump: single, 1, 0)"],
   ["verdict", "{ status, rule, reasons } with a status below, or null when no verdict was computed"],
   ["verdictNpsh", "what NPSH over the band says against the verdict, on the verdict's line wherever Dutymark shows it: a cavitation risk (NPSHa below NPSHr, or NPSHa at or below zero) or an NPSH margin below the system's wanted ratio, in words with NPSHa, NPSHr and where (\"but NPSHa 2.1 m below NPSHr 2.5 m at least lift, aged pipe (NPSHa / NPSHr 0.84, below 1): cavitation risk\"; \"but\" after meets, \"and\" after another verdict), or null when NPSH is ok, unknown or not judged"],
-  ["verdictStart", "what starting pumps in parallel one after another (duty/standby staging) says against the verdict, on the verdict's line wherever Dutymark shows it: where a pump cannot open its check valve against the head those running hold (above its shut-off head) and they deliver less than duty × (1 − minus tolerance), in words with both heads, the flow and the duty (\"but started one after another (duty/standby staging) the duty is not met: at most lift, aged pipe pump 2 of 2 cannot open its check valve against the 41.2 m pump 1 holds (above its shut-off head 40.0 m), so only 1 delivers, 50.8 m³/h, below the duty 54.0 m³/h; the verdict assumes the 2 started together\"; \"but\" after meets, \"and\" after another verdict), or null; the search judges each pump alone, so null here today (a candidate's result carries it in the systems API above)"],
+  ["verdictStart", "what starting pumps in parallel one after another (duty/standby staging) says against the verdict, on the verdict's line wherever Dutymark shows it: where a pump cannot open its check valve against the head those running hold (above its shut-off head) and they deliver less than duty × (1 − minus tolerance), in words with both heads, the flow and the duty (\"but started one after another (duty/standby staging) the duty is not met: at most lift, aged pipe pump 2 of 2 cannot open its check valve against the 41.2 m pump 1 holds (above its shut-off head 40.0 m), so only 1 delivers, 50.8 m³/h, below the duty 54.0 m³/h; the verdict assumes the 2 started together\"; \"but\" after meets, \"and\" after another verdict), or null; for one pump always null (a candidate's result carries it in the systems API above)"],
   ["npsh", "NPSH as the workbench judges it, at the design point and each corner of the system's band: { status (ok, low-margin, cavitation-risk, unknown), marginRatio (the lowest NPSHa/NPSHr), at (where), available (NPSHa there, m), rule, unjudged [{ at, why }]: the points the rule names that could not be judged (no operating point there, or no NPSHr at that flow), which leave the status unknown }, or null with no verdict; a pump that meets the duty but has a cavitation risk on the band ranks after those that do not"],
-  ["figures", "at the operating point of the adjustment above (where it meets the system's design curve), as the candidates table: operatingPoint { flow (m³/s), head (m) } or null, efficiency (0–1), shaftPower (W), bepRatio (operating flow / BEP flow), inPor; the search's at the typed duty: headAtDuty (m), npshRequired (m), npshMargin (NPSHa/NPSHr at the duty), score"],
-  ["atTypedDuty", "the search's own setting and figures at the typed duty, which rank the result: ratio, speed (rpm), diameter (m), efficiency, shaftPower (W), bepRatio, inPor"],
+  ["figures", "at the operating point of the adjustment above (where it meets the system's design curve), as the candidates table: operatingPoint { flow (m³/s), head (m) } or null, perPump { flow, head } (one pump's share of it: the flow / duty pumps in parallel, the head / duty pumps in series; the operating point itself for one pump) or null, efficiency (0–1), shaftPower (W), shaftPowerPerPump (W), bepRatio (operating flow / BEP flow), inPor; for pumps in parallel or series operatingPoint and shaftPower are the duty pumps' together, efficiency, bepRatio, inPor and shaftPowerPerPump one pump's (identical pumps share the duty equally, common practice); the search's at the typed duty (one pump's share of it for several): headAtDuty (m), npshRequired (m), npshMargin (NPSHa/NPSHr at the duty), score"],
+  ["atTypedDuty", "the search's own setting and figures at the typed duty, which rank the result (one pump at its share of the duty for several pumps): ratio, speed (rpm), diameter (m), efficiency, shaftPower (W), bepRatio, inPor"],
   ["reason, warnings", "why the result ranks where it does, in words, from the figures at the typed duty (it says so where they differ from adjustment and figures); warnings: first the cautions that qualify the verdict, as the candidates table gives them (no flow at the design point (dead-head), an unstable crossing past the operating point, runout, each band edge's, a pump in parallel or series that cannot start), then the search's own at the typed duty (e.g. trim is approximate), each once"],
 ];
 
@@ -53,7 +54,7 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
       <h3 className="font-semibold">GET /api/v1/systems/:id</h3>
       <p className="text-sm text-slate-700">The stored system evaluated with its candidates: the same view as the live preview.</p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SYSTEM_FIELDS} />
-      <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed][&amp;page=N]</h3>
+      <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed][&amp;arrangement=parallel&amp;pumps=2&amp;standby=1][&amp;page=N]</h3>
       <p className="text-sm text-slate-700">
         Pumps from the libraries open to your workspace that meet the system's stored duty, ranked, {pageRows} a page:{" "}
         <code>{"{ duty, message, stats, hidden, catalogueFilter, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
@@ -73,6 +74,20 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
         searched at the equivalent water duty Q/C_Q, H/C_H and the results' figures are estimates on the liquid; with
         no-correction (B at most 1), outside-method (B above 40) or no-speed the duty itself was searched on the water curves, as
         before. <code>ranksOnLiquid</code>, <code>rule</code> and <code>message</code> (the same line as the search page) go with it.
+      </p>
+      <p className="text-sm text-slate-700">
+        Pumps in parallel or series, as the search page's arrangement filter: <code>arrangement</code> single (the default),
+        parallel or series; <code>pumps</code> the duty pumps, a whole number from {SEARCH_MIN_PUMPS} to {SEARCH_MAX_PUMPS} (default{" "}
+        {SEARCH_DEFAULT_PUMPS}); <code>standby</code> the standby pumps, 0 (the default) to <code>pumps</code>, with parallel only (they do
+        not run and count in no figure). Each once; an unknown arrangement, a count outside its range or not a whole number, or{" "}
+        <code>pumps</code> or <code>standby</code> where they do not apply is a 400 naming the parameter (<code>errors</code>{" "}
+        <code>{"[{ field, message }]"}</code>). The engine ranks one pump at its share of the duty — the duty flow / pumps in
+        parallel, the duty head / pumps in series, the ranking's approximation (common practice) — and each result's verdict
+        judges the pumps' combined curve against the system exactly, as a candidate with that adjustment (staged starts in{" "}
+        <code>verdictStart</code>, a pump that cannot start in <code>warnings</code>, the motor per pump). The answer's{" "}
+        <code>arrangement</code> <code>{"{ arrangement, dutyPumps, standbyPumps, searchedDuty { flow, head }, rule }"}</code> says
+        what was searched (<code>searchedDuty</code>: the share ranked at; <code>rule</code> in words, null for one pump).
+        A result added with that adjustment opens with the same verdict.
       </p>
       <DocTable head={FIELD_HEAD} cells={FIELD_CELLS} rows={SEARCH_FIELDS} />
       <h3 className="font-semibold">Verdict statuses</h3>

@@ -6,6 +6,10 @@ import { addCandidate, addCandidates, candidateSetIds, MAX_CANDIDATES, MAX_PICKS
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId, formId, readFormSafe, readQuery, QueryFlag, QueryId, QueryText } from "~/lib/shared/forms.server";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
+import { arrangementAdjustment, arrangementWords, pickSuffix, rankedAtText } from "~/lib/projects/search-arrangement";
+import { pumpsBasis } from "~/lib/projects/power-basis";
+import { totalPowerText } from "~/components/power-text";
+import { ArrangementFields, ArrangementFigures } from "~/components/search-arrangement";
 import { can } from "~/lib/auth/permissions";
 import { FormError } from "~/components/forms";
 import { AccessBadge, curveLabel } from "~/components/library-bits";
@@ -32,6 +36,10 @@ const SearchQuery = v.object({
   maxPower: QueryText(40),
   method: v.fallback(v.array(v.string()), []),
   beyond: QueryFlag,
+  // One pump (default), duty pumps in parallel (with standby pumps) or in series (search-arrangement.ts).
+  arrangement: QueryText(40),
+  pumps: QueryText(40),
+  standby: QueryText(40),
   page: QueryId, // 1.. (a page past the last shows the last)
 });
 
@@ -43,7 +51,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const query = readQuery(url, SearchQuery, { many: ["method"] });
   const q = (k: "maxPower" | "speed" | "type" | "size") => query[k];
   // The forms' strict reader: a value the search cannot use is set aside, and the page says which and why.
-  const { filters, methods, notes: filterNotes } = readSearchFilters(query, sys);
+  const { filters, methods, arrangement, notes: filterNotes } = readSearchFilters(query, sys);
   const viewer = viewerOf(m);
   const [res, onSystem] = await Promise.all([
     searchForSystem(viewer, id, filters, { page: query.page ?? 1, pageSize: SEARCH_PAGE_ROWS }),
@@ -60,12 +68,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     message: res.message,
     filterNotes,
     stats: res.stats,
+    // The arrangement searched: each pump ranked at its share of the duty, each verdict the arrangement's (search-arrangement.ts).
+    arrangement: { ...res.arrangement, words: arrangementWords(res.arrangement) },
     npshaAtDuty: res.npshaAtDuty,
     // A custom liquid: searched at the equivalent water duty (ANSI/HI 9.6.7) where the method applies, each verdict on the liquid.
     customLiquid: res.system.input.fluid.kind === "custom" ? res.system.input.fluid.name || "the custom liquid" : null,
     liquidSearch: res.liquidSearch ? { message: res.liquidSearch.message, rule: res.liquidSearch.rule, ranksOnLiquid: res.liquidSearch.ranksOnLiquid } : null,
     // Which point each row's setting and figures are at, and which point ranks it.
-    figuresRule: res.dutyCheck && res.system.input.duty ? `How, efficiency, vs BEP and shaft power: each pump as its verdict judges it (as the candidates table would show it): its trim or speed solved to deliver the duty flow ${qt("flow", res.system.input.duty.flow)} against the system's head there at the band's demanding edge (${qt("head", res.dutyCheck.governingHead)}, ${res.dutyCheck.governingEdge}), and the figures at its operating point, where that curve meets the system's design curve. The rank is the search's score at the typed duty (${qt("flow", res.system.input.duty.flow)} at ${qt("head", res.system.input.duty.head)}); "why this rank" quotes its figures there and says so where they differ from the row's.` : null,
+    figuresRule: res.dutyCheck && res.system.input.duty ? `How, efficiency, vs BEP and shaft power: each pump as its verdict judges it (as the candidates table would show it): its trim or speed solved to deliver ${res.arrangement.rule ? `the duty flow ${qt("flow", res.system.input.duty.flow)} with ${arrangementWords(res.arrangement)}, each pump its share (of the ${res.arrangement.arrangement === "parallel" ? "flow" : "head"}; efficiency and vs BEP each pump's, shaft power per pump and together)` : `the duty flow ${qt("flow", res.system.input.duty.flow)}`} against the system's head there at the band's demanding edge (${qt("head", res.dutyCheck.governingHead)}, ${res.dutyCheck.governingEdge}), and the figures at its operating point, where that curve meets the system's design curve. The rank is the search's score ${res.arrangement.rule ? rankedAtText(res.system.input.duty, res.arrangement) : `at the typed duty (${qt("flow", res.system.input.duty.flow)} at ${qt("head", res.system.input.duty.head)})`}; "why this rank" quotes its figures there and says so where they differ from the row's.` : null,
     hidden: res.hidden,
     powerFilter: res.powerFilter,
     // Rows outside the catalogue hidden fill no place: whether the list was cut, in words with its numbers (search-fill.ts).
@@ -82,6 +92,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       size: r.size,
       curve: curveLabel(r.setSpeed, r.setDiameter),
       method: r.method,
+      // The Add value: the row's method and the arrangement it was judged in, stored as the candidate's adjustment.
+      pick: `${r.curveSetId}:${r.method}${pickSuffix(r.arrangement)}`,
+      // Several pumps: the duty pumps' operating point together and each pump's share (shaftPower is theirs together).
+      operatingPoint: r.operatingPoint,
+      perPump: r.perPump,
       // The setting the verdict judged, with the rule it was found by (the How cell's title).
       // The rpm or Ø by the one rule the candidates table uses (setting-step.ts; a diameter as a token, in the reader's units).
       how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }))})` : ""}`,
@@ -113,7 +128,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     candidateCount: onSystem.length,
     limits: { candidates: MAX_CANDIDATES, picks: MAX_PICKS },
     canWrite: can(m.role, "project.write"),
-    filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue },
+    filters: { type: q("type"), size: q("size"), speed: q("speed"), maxPower: q("maxPower"), methods, beyond: filters.allowBeyondCatalogue,
+      arrangement: { arrangement: arrangement.arrangement, pumps: query.pumps || "2", standby: query.standby || "0" } },
   }, sys);
 }
 
@@ -124,9 +140,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   const viewer = viewerOf(m);
   let r: { ok: true } | { ok: false; reason: string };
   if (form.has("one")) {
-    // One row's own "Add" button (`one=<curveSetId>:<method>`): that pump only, whatever else is ticked.
-    const [{ curveSetId, method }] = readPicks([form.get("one")], "one");
-    r = await addCandidate(viewer, id, curveSetId, { ...DEFAULT_ADJUSTMENT, method });
+    // One row's own "Add" button (`one=<curveSetId>:<method>[:<arrangement>:<duty>:<standby>]`): that pump only, in the
+    // arrangement its row was judged in, whatever else is ticked.
+    const [{ curveSetId, method, arrangement }] = readPicks([form.get("one")], "one");
+    r = await addCandidate(viewer, id, curveSetId, arrangementAdjustment(method, arrangement));
   } else if (form.get("intent") === "add-many" || form.has("add")) {
     // Several ticked rows ("Add the ticked pumps"), all or nothing, in one transaction.
     r = await addCandidates(viewer, id, readPicks(form.getAll("add"), "add"));
@@ -160,6 +177,8 @@ function startOf(verdict: { status: string } | null, staged: unknown): { verdict
 export default function Search({ actionData }: Route.ComponentProps) {
   const d = useLoaderData<typeof loader>();
   const sys = d.unitSystem;
+  const basis = pumpsBasis(d.arrangement); // several pumps: figures labelled per pump and together, as the candidates table
+  const each = basis ? " (each pump)" : "";
   return (
     <div className="space-y-4">
       <PageHead
@@ -187,7 +206,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
           <input name="speed" inputMode="numeric" defaultValue={d.filters.speed} className="field w-24" />
         </label>
         <label>
-          <span className="label">Max shaft power ({labelOf(sys, "power")})</span>
+          <span className="label">Max shaft power ({labelOf(sys, "power")}, each pump)</span>
           <input name="maxPower" inputMode="decimal" defaultValue={d.filters.maxPower} className="field w-24" />
         </label>
         <fieldset>
@@ -198,6 +217,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
             </label>
           ))}
         </fieldset>
+        <ArrangementFields value={d.filters.arrangement} />
         <label className="flex items-center gap-1">
           <input type="checkbox" name="beyond" value="1" defaultChecked={d.filters.beyond} /> allow beyond the catalogue
           <span className="text-xs text-slate-500">(trims or speeds the model does not publish)</span>
@@ -206,12 +226,12 @@ export default function Search({ actionData }: Route.ComponentProps) {
       </Form>
       {d.dutyCheck ? (
         <p className={`text-xs ${d.dutyCheck.differs ? "caution" : "text-slate-600"}`} data-testid="duty-check">
-          {d.dutyCheck.message} {d.dutyCheck.governs} Each row's verdict is the pump as offered (its trim or speed) on the system's band.
+          {d.dutyCheck.message} {d.dutyCheck.governs} Each row's verdict is {basis ? `the ${d.arrangement.words} as offered (their trim or speed, their combined curve)` : "the pump as offered (its trim or speed)"} on the system's band.
         </p>
       ) : null}
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
-          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet the duty
+          {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet {basis ? "one pump's share of " : ""}the duty
           {d.stats.rejectedByNpsh ? ` · ${npshLeftOutText(d.stats.rejectedByNpsh, d.npshaAtDuty, sys)}` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.overPower ? ` · ${d.hidden.overPower} above the max shaft power at their operating point left out` : ""}
@@ -224,6 +244,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.catalogueCut ? <span className="caution" data-testid="search-catalogue-cut">{` · ${d.catalogueCut} (tick "allow beyond the catalogue" to see the hidden ones, or narrow the filters)`}</span> : null}
         </p>
       ) : null}
+      {d.stats && d.arrangement.rule ? <p className="text-xs text-slate-600" data-testid="search-arrangement-rule">{d.arrangement.rule}</p> : null}
       {d.stats && d.customLiquid ? (
         <p className="text-xs caution" data-testid="search-liquid">
           {d.liquidSearch?.message}{" "}
@@ -253,8 +274,8 @@ export default function Search({ actionData }: Route.ComponentProps) {
                   <th>Library</th>
                   <th>How</th>
                   <th>Verdict</th>
-                  <th>Efficiency</th>
-                  <th>vs BEP</th>
+                  <th>Efficiency{each}</th>
+                  <th>vs BEP{each}</th>
                   <th title={d.npshRule ?? undefined}>NPSH margin over the band</th>
                   <th>Shaft power</th>
                   <th>Why this rank</th>
@@ -266,7 +287,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                   <tr key={`${r.curveSetId}-${r.method}`} className="border-t border-slate-100 align-top">
                     {d.canWrite ? (
                       <td className="py-1">
-                        {r.already ? null : <input type="checkbox" name="add" value={`${r.curveSetId}:${r.method}`} aria-label={`Tick ${r.model} ${r.curve} (${METHOD_TEXT[r.method]})`} />}
+                        {r.already ? null : <input type="checkbox" name="add" value={r.pick} aria-label={`Tick ${r.model} ${r.curve} (${METHOD_TEXT[r.method]})`} />}
                       </td>
                     ) : null}
                     <td className="py-1">{r.rank}</td>
@@ -278,7 +299,10 @@ export default function Search({ actionData }: Route.ComponentProps) {
                       {r.library}
                       {r.alsoIn.length ? <div className="text-slate-500">also in {r.alsoIn.join(", ")}</div> : null}
                     </td>
-                    <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>{r.how}</td>
+                    <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>
+                      {r.how}
+                      <ArrangementFigures units={sys} basis={basis} words={d.arrangement.words} operatingPoint={r.operatingPoint} perPump={r.perPump} testId={`search-arrangement-${r.curveSetId}`} />
+                    </td>
                     <td className="max-w-xs">
                       <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} startNote={r.verdictStart} />
                       {r.cautions.length ? (
@@ -306,7 +330,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         </span>
                       ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
                     </td>
-                    <td data-testid={`search-power-${r.curveSetId}`}>{fmtPower(sys, r.shaftPower)}</td>
+                    <td data-testid={`search-power-${r.curveSetId}`}>{totalPowerText(sys, r.shaftPower, basis)}</td>
                     <td className="max-w-md text-xs">{r.reason}</td>
                     <td>
                       {d.canWrite ? (
@@ -314,7 +338,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                           <span className="text-xs text-slate-500">candidate</span>
                         ) : (
                           // Adds this row only (the action reads `one` before the ticked `add` rows).
-                          <button name="one" value={`${r.curveSetId}:${r.method}`} className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= d.limits.candidates} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
+                          <button name="one" value={r.pick} className="btn-quiet py-0.5 text-xs" disabled={d.candidateCount >= d.limits.candidates} aria-label={`Add ${r.model} ${r.curve} as a candidate`}>
                             Add
                           </button>
                         )

@@ -1,5 +1,6 @@
-// Several candidates at once, from one search: the ticked rows of the search page (`<curveSetId>:<method>`)
-// are read by `PicksSchema` and added by `addCandidates` in one transaction. A curve already on the
+// Several candidates at once, from one search: the ticked rows of the search page (`<curveSetId>:<method>`, and for
+// pumps in parallel or series `:<parallel|series>:<duty pumps>:<standby pumps>`: the arrangement the row was judged in,
+// stored as the candidate's adjustment, search-arrangement.ts) are read by `PicksSchema` and added by `addCandidates` in one transaction. A curve already on the
 // system is skipped; one the viewer may not use (another workspace's library, a shared library the plan
 // does not open) refuses the whole request before anything is written.
 import { eq } from "drizzle-orm";
@@ -7,7 +8,8 @@ import { data } from "react-router";
 import * as v from "valibot";
 import { withTransaction } from "@db/client.server";
 import { candidates, systems } from "@db/schema";
-import { DEFAULT_ADJUSTMENT, type Adjustment } from "./hydraulics";
+import { type Adjustment } from "./hydraulics";
+import { arrangementAdjustment, pickArrangement, SEARCH_MAX_PUMPS, SEARCH_MIN_PUMPS, SINGLE_PUMP } from "./search-arrangement";
 import { type Viewer } from "../libraries";
 import { assertOpenCurveSets, getSystem, MAX_CANDIDATES, openCandidates } from "./projects.server";
 
@@ -17,13 +19,20 @@ export const MAX_PICKS = 20;
 type Method = Adjustment["method"];
 const METHODS: Record<string, Method> = { direct: "none", none: "none", trim: "trim", speed: "speed" };
 
-/** One ticked row: `<curveSetId>:<direct|none|trim|speed>` → the curve set and the adjustment method. */
+const ARRANGEMENT = `A ticked pump's arrangement is parallel or series, ${SEARCH_MIN_PUMPS} to ${SEARCH_MAX_PUMPS} duty pumps and 0 to the duty pumps on standby (in parallel only).`;
+
+/**
+ * One ticked row: `<curveSetId>:<direct|none|trim|speed>[:<parallel|series>:<duty pumps>:<standby pumps>]` → the curve
+ * set, the adjustment method and the arrangement (one pump without it).
+ */
 const Pick = v.pipe(
   v.string("Each ticked pump is an id and a method."),
-  v.regex(/^\d{1,15}:(direct|none|trim|speed)$/, "Each ticked pump is an id and a method."),
+  v.regex(/^\d{1,15}:(direct|none|trim|speed)(:[a-z]{1,10}:\d{1,2}:\d{1,2})?$/, "Each ticked pump is an id and a method."),
+  v.check((x) => x.split(":").length === 2 || typeof pickArrangement(...(x.split(":").slice(2) as [string, string, string])) !== "string", ARRANGEMENT),
   v.transform((x) => {
-    const [id, method] = x.split(":");
-    return { curveSetId: Number(id), method: METHODS[method] };
+    const [id, method, ...arr] = x.split(":");
+    const a = arr.length ? pickArrangement(arr[0], arr[1], arr[2]) : SINGLE_PUMP;
+    return { curveSetId: Number(id), method: METHODS[method], arrangement: typeof a === "string" ? SINGLE_PUMP : a };
   }),
 );
 
@@ -62,7 +71,7 @@ export async function addCandidates(viewer: Viewer, systemId: number, picks: Pic
       return { ok: false as const, reason: `At most ${MAX_CANDIDATES} candidates: the system has ${existing.length}, and ${fresh.length} more were ticked. Tick fewer or remove some first.` };
     }
     if (fresh.length) {
-      await tx.insert(candidates).values(fresh.map((p) => ({ systemId: s.id, curveSetId: p.curveSetId, adjustmentJson: JSON.stringify({ ...DEFAULT_ADJUSTMENT, method: p.method }) })));
+      await tx.insert(candidates).values(fresh.map((p) => ({ systemId: s.id, curveSetId: p.curveSetId, adjustmentJson: JSON.stringify(arrangementAdjustment(p.method, p.arrangement)) })));
     }
     return { ok: true as const, added: fresh.length, skipped };
   });

@@ -1,9 +1,12 @@
 // One duty-point search result as the read API returns it (pure; SI units): the search's own result,
 // which carries the figures, the curve set's model id and library, and the verdict. The adjustment and the
 // efficiency, shaft power and BEP position are the verdict's (at the operating point); the search's own at the
-// typed duty, which rank the result, are `atTypedDuty`.
+// typed duty, which rank the result, are `atTypedDuty`. Pumps in parallel or series (search-arrangement.ts): the
+// operating point and shaft power are the duty pumps' together, `perPump` and `shaftPowerPerPump` one pump's, efficiency
+// and BEP position one pump's, as the candidates table shows them (power-basis.ts); `atTypedDuty` one pump's at its share.
 import type { Candidate } from "~/engine";
 import type { NpshJudgement } from "./candidate-judgement";
+import { SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 
@@ -30,8 +33,12 @@ export type SearchResultIn = Pick<
   stagedStart?: unknown;
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
-  /** The operating point the figures are at (m³/s, m), null without one. */
+  /** The operating point the figures are at (m³/s, m), null without one: the duty pumps' together for several. */
   operatingPoint: { flow: number; head: number } | null;
+  /** The arrangement judged (absent: one pump), one pump's operating point and shaft power (absent: as the row's). */
+  arrangement?: SearchArrangement;
+  perPump?: { flow: number; head: number } | null;
+  shaftPowerPerPump?: number | null;
   /** The search's setting and figures at the typed duty (what ranks the result). */
   atTypedDuty: Pick<Candidate, "ratio" | "speed" | "diameter" | "efficiency" | "shaftPower" | "bepRatio" | "inPor">;
 };
@@ -48,14 +55,14 @@ export type SearchResultView = {
   /** The published curve searched: speed, rpm; impeller diameter, m. */
   curve: { speed: number | null; impellerDiameter: number | null };
   /** How the pump meets the duty as its verdict judged it: none (as published), speed (affinity laws) or trim (approximate); `note` how the ratio was found. */
-  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null };
+  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null } & SearchArrangement;
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
   /** What NPSH over the band says against the verdict, in words with its numbers ("but NPSHa … below NPSHr … at …: cavitation risk"), or null (verdict-npsh.ts). */
   verdictNpsh: string | null;
   /**
    * What starting pumps in parallel one after another says against the verdict, in words with its numbers ("but started one after
-   * another (duty/standby staging) the duty is not met: …"), or null (verdict-start.ts; the search judges one pump, so null there).
+   * another (duty/standby staging) the duty is not met: …"), or null (verdict-start.ts; null for one pump).
    */
   verdictStart: string | null;
   /**
@@ -63,9 +70,15 @@ export type SearchResultView = {
    * unjudged (the points the rule names that could not be judged, each { at, why }: any of them leaves the status "unknown") }, or null.
    */
   npsh: { status: string; marginRatio: number | null; at: string | null; available: number | null; rule: string; unjudged: { at: string; why: string }[] } | null;
-  /** operatingPoint, efficiency, shaftPower, bepRatio, inPor: at the operating point judged; headAtDuty, npshRequired, npshMargin, score: the search's at the typed duty. */
+  /**
+   * operatingPoint, perPump, efficiency, shaftPower, shaftPowerPerPump, bepRatio, inPor: at the operating point judged (several
+   * pumps: operatingPoint and shaftPower the duty pumps' together, the rest one pump's); headAtDuty, npshRequired, npshMargin,
+   * score: the search's at the typed duty (one pump's share of it for several).
+   */
   figures: {
     operatingPoint: { flow: number; head: number } | null;
+    perPump: { flow: number; head: number } | null;
+    shaftPowerPerPump: number | null;
     headAtDuty: number;
     efficiency: number | null;
     shaftPower: number | null;
@@ -94,13 +107,15 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     size: r.size,
     library: r.library,
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
-    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote },
+    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote, ...(r.arrangement ?? SINGLE_PUMP) },
     verdict: r.verdict ?? null,
     verdictNpsh: verdictNpshNote(r.verdict as { status: string } | null | undefined, r.npsh as NpshJudgement | null | undefined),
     verdictStart: verdictStartNote(r.verdict as { status: string } | null | undefined, r.stagedStart),
     npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule, unjudged: r.npsh.unjudged ?? [] } : null,
     figures: {
       operatingPoint: r.operatingPoint,
+      perPump: r.perPump !== undefined ? r.perPump : r.operatingPoint,
+      shaftPowerPerPump: r.shaftPowerPerPump !== undefined ? r.shaftPowerPerPump : r.shaftPower,
       headAtDuty: r.headAtDuty, efficiency: r.efficiency, shaftPower: r.shaftPower, npshRequired: r.npshr,
       npshMargin: r.npshMargin, bepRatio: r.bepRatio, inPor: r.inPor, score: r.score,
     },

@@ -4,16 +4,19 @@
 // sets and the engine's prepared index over them are read and built once per app process and kept
 // compactly (revision-curves.server.ts); the index over a list of revisions (and the type/size/speed
 // filters) is those indexes joined (no curve prepared again), kept too. Each request then only runs
-// `searchDuty`, groups the best rows, judges them in rank order until SEARCH_EVALUATED are kept (rows above a max shaft
+// `searchDuty` (at one pump's share of the duty for pumps in parallel or series: search-arrangement.ts), groups the
+// best rows, judges them in rank order until SEARCH_EVALUATED are kept (rows above a max shaft
 // power or hidden outside the catalogue take no place: on down the ranking, at most SEARCH_FILL_JUDGED, search-fill.ts;
 // the system's evaluation and its verdicts kept per system input) and returns the page of rows asked for (SEARCH_SHOWN
 // by default, SEARCH_PAGE_ROWS on the page). A new revision, a saved input or a plan that opens or closes libraries is a
 // new key, so it is seen at once; any other process builds the same.
 import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdictLabel, type Candidate as EngineCandidate, type SearchIndex, type SearchOptions, type SearchResult, type Verdict } from "~/engine";
-import { DEFAULT_ADJUSTMENT, evaluateCandidate, evaluateSystem, type Adjustment, type SystemInput } from "./hydraulics";
+import { evaluateSystem, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
-import { fmtNumExact, qt } from "~/engine/quantityText";
+import { fmtNumExact } from "~/engine/quantityText";
+import { judgeSearchRow, type Judged, type JudgedSetting } from "./search-judge";
+import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
 import { LRUCache } from "lru-cache";
@@ -33,6 +36,8 @@ export type SearchFilters = {
   methods?: ("direct" | "trim" | "speed")[];
   /** Offer pumps whose verdict is outside-catalogue too (trim or speed beyond what the model publishes). */
   allowBeyondCatalogue?: boolean;
+  /** Pumps in parallel or series (search-arrangement.ts); absent: one pump. */
+  arrangement?: SearchArrangement;
 };
 
 /** Rows returned at once by default (the read API); the search page shows SEARCH_PAGE_ROWS a page. */
@@ -143,26 +148,12 @@ export function preparedSearch(open: readonly OpenRevision[], filters: SearchFil
 
 /**
  * The system's evaluation and the verdicts per system input: both are pure functions of the system
- * document (and, for a verdict, the immutable curve set and the method), so repeat views and filter
- * changes of one system reuse them. Keyed by the stored input JSON; a saved change is a new key.
+ * document (and, for a verdict, the immutable curve set, the method and the arrangement), so repeat views and filter
+ * changes of one system reuse them. Keyed by the stored input JSON and the arrangement; a saved change is a new key.
  * Least recently used dropped first.
  */
 const VERDICT_SYSTEMS_LIMIT = 32;
-/**
- * The pump as its verdict judged it (evaluateCandidate, as the candidates table): the setting solved to the system's
- * head at the duty flow at the band's demanding edge (`ratioNote` says how) and its figures at the operating point,
- * where that curve meets the system's design curve (figures null without one).
- */
-export type JudgedSetting = {
-  ratio: number; ratioNote: string | null; speed: number | null; diameter: number | null;
-  operatingPoint: { flow: number; head: number } | null;
-  efficiency: number | null; shaftPower: number | null; bepRatio: number | null; inPor: boolean | null;
-};
-/**
- * What the search keeps of a pump judged as offered on the band: its verdict, its NPSH over the band's corners, the cautions that
- * qualify the verdict, its staged starts that leave the duty unmet (verdict-start.ts; none for the one pump the search judges) and what it judged.
- */
-type Judged = { verdict: Verdict; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting };
+export type { JudgedSetting } from "./search-judge";
 type SystemWork = { evaluation: ReturnType<typeof evaluateSystem>; verdicts: Map<string, Judged | null> };
 const verdictCache = new LRUCache<string, SystemWork>({ max: VERDICT_SYSTEMS_LIMIT });
 function workFor(inputJson: string, input: SystemInput): SystemWork {
@@ -211,11 +202,13 @@ function curveKey(s: LibraryCurveSet): string {
 export async function searchForSystem(viewer: Viewer, systemId: number, filters: SearchFilters = {}, opts: { uncached?: boolean; page?: number; pageSize?: number } = {}) {
   const [system, { open, locked }] = await Promise.all([getSystem(viewer, systemId), searchableRevisions(viewer)]);
   const pageSize = opts.pageSize ?? SEARCH_SHOWN;
-  const none = { stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, catalogueFilter: null as CatalogueFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
+  const arrangement = severalPumps(filters.arrangement) ?? SINGLE_PUMP;
+  const none = { arrangement: { ...arrangement, searchedDuty: null as { flow: number; head: number } | null, rule: null as string | null }, stats: null, npshaAtDuty: null as number | null, hidden: { outsideCatalogue: 0, duplicates: 0, overPower: 0 }, leftOut: leftOutSummary([]), dutyCheck: null, liquidSearch: null as LiquidSearchPlan | null, powerFilter: null as PowerFilterOutcome | null, catalogueFilter: null as CatalogueFilterOutcome | null, paging: { page: 1, pages: 1, pageSize, total: 0 } as Paging };
   if (!system.input.duty) return { system, results: [], locked, ...none, message: "Set a duty point (flow and head) first." };
   let work: SystemWork;
   try {
-    work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson, system.input);
+    // Kept per system input and arrangement: each arrangement's verdicts one LRU entry, so trying many stays bounded.
+    work = opts.uncached ? { evaluation: evaluateSystem(system.input), verdicts: new Map() } : workFor(system.inputJson + arrangementKey(arrangement), system.input);
   } catch (e) {
     // Inputs the schema accepts but the engine cannot evaluate (e.g. water past the table's range) are the
     // user's to fix, not a server fault: the page says why.
@@ -228,7 +221,10 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const libraryName = new Map(open.map((o) => [o.revisionId, o.name]));
   const own = new Set(open.filter((o) => o.own).map((o) => o.libraryId));
   const npshaAtDuty = npshaAtDutyOf(system.input, evaluation); // judged by the search, and shown with its count
-  const duty = { flow: system.input.duty.flow, head: system.input.duty.head };
+  // Pumps in parallel or series: the engine ranks one pump at its share of the duty (flow / N in parallel, head / N in
+  // series) — the ranking's approximation, common practice —; each row's verdict judges the arrangement exactly
+  // (search-judge.ts). NPSHa stays the system's at the whole duty flow: the pumps draw through the one suction line.
+  const duty = dutyShare(system.input.duty, arrangement);
   const options = searchOptionsFor(system.input, evaluation, filters, npshaAtDuty);
   // A max shaft power filter may leave out many judged rows: the engine ranks enough for SEARCH_FILL_JUDGED groups at once.
   if (filters.maxPowerW) options.limit = SEARCH_FILL_JUDGED * 2;
@@ -264,7 +260,9 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
   const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, stagedStart, shown }, j) => ({
     ...rows[first + j],
-    ...shownRow(rows[first + j], shown, system.input.duty!),
+    ...shownRow(rows[first + j], shown, system.input.duty!, arrangement),
+    /** The arrangement every row is judged in (one pump, or pumps in parallel or series). */
+    arrangement,
     curveSetId: s.id,
     modelId: s.modelId,
     model: s.model,
@@ -279,10 +277,10 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     npsh,
     /** The cautions that qualify the verdict (dead-head, unstable crossings, band edges', a pump in parallel or series that cannot start), as the candidates table's. */
     cautions,
-    /** Pumps in parallel started one after another that leave the duty unmet (verdict-start.ts), as the candidate's result: [] here, one pump judged. */
+    /** Pumps in parallel started one after another that leave the duty unmet (verdict-start.ts), as the candidate's result ([] for one pump). */
     stagedStart,
   }));
-  return { system, results, locked, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: plan, powerFilter, catalogueFilter, paging, message: null as string | null };
+  return { system, results, locked, arrangement: { ...arrangement, searchedDuty: duty, rule: arrangementRule(system.input.duty, arrangement) }, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: plan, powerFilter, catalogueFilter, paging, message: null as string | null };
 }
 
 /** What `groupAndJudge` reads: the prepared search, library names, the workspace's own libraries, the kept verdicts, the system and the filters. */
@@ -292,7 +290,7 @@ type Kept = { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdic
 /**
  * The engine's rows grouped, one per distinct curve (the best-ranked copy stays, preferring the workspace's own library on
  * a tie), then judged in rank order: each pump's verdict as it would be added (its method, the ratio solved against the
- * system as the workbench does) on the band, the row showing that setting and its figures at the operating point (the
+ * system as the workbench does, the arrangement searched: search-judge.ts) on the band, the row showing that setting and its figures at the operating point (the
  * engine's at the typed duty still rank it). Rows above the max shaft power, and outside the catalogue unless asked for,
  * are left out and fill no place: judged until SEARCH_EVALUATED are kept, the ranking ends or SEARCH_FILL_JUDGED are judged.
  */
@@ -321,23 +319,12 @@ function groupAndJudge(j: Judging, res: SearchResult) {
     judgedCount++;
     duplicates += g.copies;
     const method = g.row.method === "direct" ? "none" : g.row.method;
-    const vk = `${g.set.id}#${method}`;
+    const vk = `${g.set.id}#${method}${arrangementKey(filters.arrangement)}`; // the arrangement's verdict is its own
     let judged = verdicts.get(vk);
-    if (judged === undefined) {
-      try {
-        const adj = { ...DEFAULT_ADJUSTMENT, method } as Adjustment;
-        const e = evaluateCandidate(input, g.set, adj, { catalogue: catalogueOf(g.set) });
-        const f = e.figures;
-        judged = e.verdict ? { verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [], shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: e.operating,
-          efficiency: f?.efficiency ?? null, shaftPower: f?.shaftPower ?? null, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null } } : null;
-      } catch {
-        judged = null; // a curve the workbench cannot evaluate keeps its search row without a verdict
-      }
-      verdicts.set(vk, judged);
-    }
+    if (judged === undefined) verdicts.set(vk, (judged = judgeSearchRow(input, g.set, method, filters.arrangement, catalogueOf(g.set))));
     const verdict = judged?.verdict ?? null;
-    // The max shaft power filter acts on the power the row shows (its operating point's), before paging: counts stay right.
-    if (filters.maxPowerW && judged?.shown.shaftPower != null && judged.shown.shaftPower > filters.maxPowerW) {
+    // The max shaft power filter acts on one pump's power at the operating point (each pump has its own motor), before paging.
+    if (filters.maxPowerW && judged?.shown.shaftPowerPerPump != null && judged.shown.shaftPowerPerPump > filters.maxPowerW) {
       overPower++;
       continue;
     }
@@ -353,16 +340,17 @@ function groupAndJudge(j: Judging, res: SearchResult) {
 
 /**
  * A row's setting and figures as its verdict judged them (without a verdict: the search's setting, no figures), the
- * search's at the typed duty kept apart (`atTypedDuty`: what ranks the row), and its reason saying it quotes the typed
- * duty where those differ from what is shown.
+ * search's at the typed duty — one pump's share of it for several pumps — kept apart (`atTypedDuty`: what ranks the row),
+ * and its reason saying where it quotes figures from where those differ from what is shown, or always for several pumps.
  */
-function shownRow(row: EngineCandidate, shown: JudgedSetting | null, duty: { flow: number; head: number }) {
+function shownRow(row: EngineCandidate, shown: JudgedSetting | null, duty: { flow: number; head: number }, a: SearchArrangement) {
   const atTypedDuty = { ratio: row.ratio, speed: row.speed, diameter: row.diameter, efficiency: row.efficiency, shaftPower: row.shaftPower, bepRatio: row.bepRatio, inPor: row.inPor };
-  const same = (a: number | null, b: number | null) => a === b || (a != null && b != null && Math.abs(a - b) <= 1e-6 * Math.max(Math.abs(a), Math.abs(b)));
-  const differs = !shown || !same(shown.ratio, row.ratio) || !same(shown.efficiency, row.efficiency) || !same(shown.shaftPower, row.shaftPower) || !same(shown.bepRatio, row.bepRatio);
-  const at = `at the typed duty ${qt("flow", duty.flow)} at ${qt("head", duty.head)}, where it is ranked (${shown ? "not at the operating point its verdict judged" : "not judged"}): `;
-  const reason = differs ? row.reason.replace(/^(#\d+ of \d+: )/, `$1${at}`) : row.reason;
-  const none = { ratioNote: "not judged: the search's setting at the typed duty", operatingPoint: null, efficiency: null, shaftPower: null, bepRatio: null, inPor: null };
+  const same = (x: number | null, y: number | null) => x === y || (x != null && y != null && Math.abs(x - y) <= 1e-6 * Math.max(Math.abs(x), Math.abs(y)));
+  // Like with like: the engine's figures are one pump's, so against one pump's shaft power.
+  const differs = !shown || !same(shown.ratio, row.ratio) || !same(shown.efficiency, row.efficiency) || !same(shown.shaftPowerPerPump, row.shaftPower) || !same(shown.bepRatio, row.bepRatio);
+  const at = `${rankedAtText(duty, a)}, where it is ranked (${shown ? "not at the operating point its verdict judged" : "not judged"}): `;
+  const reason = differs || severalPumps(a) ? row.reason.replace(/^(#\d+ of \d+: )/, `$1${at}`) : row.reason;
+  const none = { ratioNote: "not judged: the search's setting at the typed duty", operatingPoint: null, perPump: null, efficiency: null, shaftPower: null, shaftPowerPerPump: null, bepRatio: null, inPor: null };
   return { ...(shown ?? { ratio: row.ratio, speed: row.speed, diameter: row.diameter, ...none }), atTypedDuty, reason };
 }
 

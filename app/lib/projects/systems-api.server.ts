@@ -34,6 +34,11 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
+    /**
+     * The arrangement searched: { arrangement (single, parallel, series), dutyPumps, standbyPumps, searchedDuty (one pump's
+     * share of the duty the engine ranked at, m³/s and m; null without a duty), rule (in words; null for one pump) }.
+     */
+    arrangement: res.arrangement,
     /** Curve sets the engine left out of the search (their points break its rules), with the first reasons. */
     leftOut: res.leftOut,
     /**
