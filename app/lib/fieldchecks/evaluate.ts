@@ -240,7 +240,11 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     dutyHead: engine.dutyDeviation?.head ?? null,
   };
   const speed = { rated, design, measured, rescaled, designRatio: rated !== null && design !== null ? design / rated : null };
-  const sel = sample(designCurve, rho);
+  // The curve as selected: on a viscous custom liquid corrected as the selection's figures were (its own temperature, the
+  // design speed), so its point on the system curve is the report's operating point, not the water curve's.
+  const selectedOnLiquid = curveOnLiquid(designCurve, f.system.input.fluid, fluidOf(f.system.input).kinematicViscosity, design);
+  const selectedCorrected = selectedOnLiquid.curve !== designCurve;
+  const sel = sample(selectedOnLiquid.curve, rho);
   const mea = sample(curve, rho);
   const ev = f.systemCurve;
   const flowMax = Math.max(curve.flowMax, designCurve.flowMax, (q ?? 0) * 1.1, (duty?.flow ?? 0) * 1.2, engine.flowBand?.high ?? 0);
@@ -272,7 +276,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
       system: ev && n === 1 ? ev.flows.map((x, i) => ({ flow: x, y: ev.design[i] })) : null,
       flowMax,
       band: engine.flowBand ? { low: engine.flowBand.low, high: engine.flowBand.high } : null,
-      selectedLabel: `As selected${design !== null ? ` (${Math.round(design)} rpm)` : ""}`,
+      selectedLabel: `As selected${design !== null ? ` (${Math.round(design)} rpm${selectedCorrected ? `, corrected for ${f.system.input.fluid.kind === "custom" ? f.system.input.fluid.name || "the custom liquid" : "the liquid"}` : ""})` : ""}`,
       measuredLabel: rescaled ? `At the measured ${Math.round(measured!)} rpm` : "Curve compared",
     },
   };

@@ -1,5 +1,5 @@
 // A field check on a viscous custom liquid compares with the curve the selection was judged on: the water curve
-// corrected per ANSI/HI 9.6.7 (from memory; app/engine/viscous.ts). Above B = 40 (outside the method) there is no curve
+// corrected per ANSI/HI 9.6.7 (from memory; app/engine/viscous.ts), and draws that curve as the one selected. Above B = 40 (outside the method) there is no curve
 // to hold the pump to: no tolerance verdict, with the reason. Pure. Check values: the fixture curve (invented,
 // H = 40 m − 1000 s²/m⁵·Q, 70 % at 0.015 m³/s, 2900 rpm, app/test/fieldcheck-fixture.ts); B ≈ 0.61·√ν(cSt) for it (hand
 // calculation from B = 26.6·ν^0.5·H^0.0625/(Q^0.375·N^0.25) with Q 237.8 gpm, H 82.0 ft, N 2900 rpm): 170 cSt → B ≈ 8,
@@ -37,6 +37,23 @@ describe("a field check on a viscous liquid", () => {
     const p = parseCheckFields(fieldsForHead(headAt(water, 0.012)!, 998.2, { flow: "0.012", gradeId: "2B" }), { kind: "water" });
     if (!p.ok) throw new Error("fields");
     expect(evaluateCheck(f, p.readings, "2B").verdict).toBe("pass");
+  });
+
+  test("the chart's curve as selected is the corrected one too, so its point on the system curve is the report's (it was the water curve)", () => {
+    const corrected = correctCurveForViscosity(water, { kinematicViscosity: 170e-6, speed: 2900 }).curve;
+    const r = check(170, headAt(corrected, 0.012)!);
+    const at = (pts: { flow: number; y: number }[], q: number) => {
+      const i = pts.findIndex((p) => p.flow >= q);
+      const a = pts[i - 1], b = pts[i];
+      return a.y + ((b.y - a.y) * (q - a.flow)) / (b.flow - a.flow);
+    };
+    expect(at(r.chart.selected, 0.012)).toBeCloseTo(headAt(corrected, 0.012)!, 1); // within 0.05 m (41 samples, linear between)
+    expect(Math.abs(at(r.chart.selected, 0.012) - headAt(water, 0.012)!)).toBeGreaterThan(1); // the water curve is over 5 % higher there
+    expect(r.chart.selectedLabel).toBe("As selected (2900 rpm, corrected for Test oil)");
+    // On water nothing is corrected: the label as before.
+    const p = parseCheckFields(fieldsForHead(headAt(water, 0.012)!, 998.2, { flow: "0.012", gradeId: "2B" }), { kind: "water" });
+    if (!p.ok) throw new Error("fields");
+    expect(evaluateCheck(frozenFixture(), p.readings, "2B").chart.selectedLabel).toBe("As selected (2900 rpm)");
   });
 
   test("above B = 40 there is no curve to hold the pump to: no tolerance verdict, with the reason", () => {
