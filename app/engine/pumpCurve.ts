@@ -236,7 +236,7 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
     const given = clean.find((p) => p.efficiency !== undefined || p.power !== undefined);
     warnings.push({ code: "no-efficiency", message: given
       ? `curve gives efficiency or power at one point only (${qt("flow", given.flow)}), too few to read it at another flow: power figures unavailable`
-      : "curve has neither efficiency nor power: power figures unavailable" });
+      : "curve gives neither efficiency nor power: power figures unavailable" }); // the words figures.ts uses: a candidate says it once
   }
   return curve;
 }
