@@ -127,6 +127,8 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Motor and drive efficiency", (c) => {
       const mo = c.result?.figures?.motor;
       if (!mo) return "—";
+      // No motor rated or suggested (no shaft power known, none typed): nothing to read an efficiency for.
+      if (mo.rating == null) return <span className="text-slate-600" data-testid={`motor-eff-${c.id}`}>— (no motor: {mo.suggestionBasis})</span>;
       return (
         <div>
           <div>

@@ -80,3 +80,16 @@ describe("NPSH margin over the band of a curve without NPSHr (nothing judged any
     expect(cells(evaluate(defaultSystemInput()))["NPSH margin over the band"]).toMatch(/^\d+\.\d+( – \d+\.\d+)? — lowest \d+\.\d+ at .* \(ok\)$/);
   });
 });
+
+describe("a curve that gives no power or efficiency and no motor typed: no motor to read an efficiency for", () => {
+  const headOnly = points.map((p) => ({ ...p, efficiency: null }));
+  const r = evaluateCandidate(defaultSystemInput(), { points: headOnly, speed: 2900, impellerDiameter: null }, DEFAULT_ADJUSTMENT);
+  it("the motor efficiency row says there is no motor and why (it read 'motor — (IE3) · no drive' with the IE table's source)", () => {
+    expect(r.figures?.motor?.rating ?? null).toBeNull();
+    expect(cells(r)["Motor and drive efficiency"]).toBe("— (no motor: no shaft power at the operating point: no motor suggested)");
+  });
+  it("with a motor typed, the row reads its efficiency as before", () => {
+    const typed = evaluateCandidate(defaultSystemInput(), { points: headOnly, speed: 2900, impellerDiameter: null }, { ...DEFAULT_ADJUSTMENT, motorRating: 4000 });
+    expect(cells(typed)["Motor and drive efficiency"]).toMatch(/^motor \d+\.\d %\s*\(IE3\) · no drive/);
+  });
+});
