@@ -36,7 +36,7 @@ function npshBandRange(band: BandPoint[] | undefined, n: NpshJudgement | null | 
 }
 
 /** The Crossing cell of a pump at zero flow: its shut-off head only balances the system's there (engine `dead-head`). */
-const deadHeadText = (units: UnitChoice, head: number) => `dead-head at ${fmtHead(units, head)}: no delivery (the shut-off head only balances the system's at zero flow)`;
+export const deadHeadText = (units: UnitChoice, head: number) => `dead-head at ${fmtHead(units, head)}: no delivery (the shut-off head only balances the system's at zero flow)`;
 
 /** " for 2 duty pumps" after a total of several pumps; "" for a single pump. */
 const forAll = (c: Cand) => {

@@ -5,7 +5,7 @@ import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
 import { motorNoteOf, npshNoteOf, RunTable, startNoteOf, SizingCaution, SystemWarnings, VerdictView, WorkbenchChart } from "~/components/workbench";
-import { CandidateTable } from "~/components/CandidateTable";
+import { CandidateTable, deadHeadText } from "~/components/CandidateTable";
 import { ReportMethods } from "~/components/ReportMethods";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
@@ -106,9 +106,15 @@ export default function SelectionReport() {
             <dt className="text-slate-600">Duty point</dt>
             <dd>{input.duty ? `${fmtFlow(sys, input.duty.flow)} at ${fmtHead(sys, input.duty.head)}` : "not set"}</dd>
             <dt className="text-slate-600">Operating point</dt>
-            <dd className="font-semibold">{f.result.operating ? `${fmtFlow(sys, f.result.operating.flow)} at ${fmtHead(sys, f.result.operating.head)}` : f.result.message}</dd>
+            <dd className="font-semibold" data-testid="report-operating">
+              {f.result.operating
+                ? f.result.operating.flow === 0
+                  ? deadHeadText(sys, f.result.operating.head)
+                  : `${fmtFlow(sys, f.result.operating.flow)} at ${fmtHead(sys, f.result.operating.head)}`
+                : f.result.message}
+            </dd>
             <dt className="text-slate-600">Pump added pressure</dt>
-            <dd>{f.result.operating && f.systemCurve ? fmtPressure(sys, f.result.operating.head * f.systemCurve.fluid.density * 9.80665) : "—"}</dd>
+            <dd>{f.result.operating && f.systemCurve ? `${fmtPressure(sys, f.result.operating.head * f.systemCurve.fluid.density * 9.80665)}${f.result.operating.flow === 0 ? " at zero flow (shut-off)" : ""}` : "—"}</dd>
             <dt className="text-slate-600">Pump</dt>
             <dd>
               {f.pump.model}
