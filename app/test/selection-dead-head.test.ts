@@ -10,11 +10,12 @@ import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { makeMember, type TestMember } from "./harness";
 import { selectionPages } from "./selection-pages";
+import { probePumpCsv } from "./probe-pump";
 
 afterAll(() => closeDb());
 
 const M3H = 1 / 3600;
-const CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,power_kw", ...[0, 10, 20, 30, 40].map((q) => `Shutoff probe 40,end-suction,DN50,2900,200,${q},${30 - 0.008 * q * q},${2 + 0.05 * q}`)].join("\n");
+const CSV = probePumpCsv("Shutoff probe 40");
 
 let m: TestMember;
 const selections: Record<"dead" | "runs", number> = { dead: 0, runs: 0 };

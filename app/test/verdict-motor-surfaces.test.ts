@@ -16,11 +16,12 @@ import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as selectionJson from "~/routes/selections.$id.export-json";
 import { call, makeMember, type TestMember } from "./harness";
 import { selectionPages } from "./selection-pages";
+import { probePumpCsv } from "./probe-pump";
 
 afterAll(() => closeDb());
 
 const M3H = 1 / 3600;
-const CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,power_kw", ...[0, 10, 20, 30, 40].map((q) => `Motor probe 40,end-suction,DN50,2900,200,${q},${30 - 0.008 * q * q},${2 + 0.05 * q}`)].join("\n");
+const CSV = probePumpCsv("Motor probe 40");
 const SYSTEM: SystemInput = { ...defaultSystemInput(), staticLow: 19, staticHigh: 20, duty: { flow: 30 * M3H, head: 20.5 } };
 
 let m: TestMember;
