@@ -56,7 +56,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtPct, fmtPctExact, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
@@ -191,6 +191,30 @@ export interface DutyCycleInput {
   noHeadReason?: (flow: number) => string;
 }
 
+/** The highest speed a drive runs the pump at: its full (as-installed) speed, ratio 1. */
+const NO_OVERSPEED = "(the drive does not run the pump above its full speed)";
+
+/**
+ * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
+ * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
+ * reach at full speed (`asks`: whose head it is). Null where none of these holds (the solver's own words then).
+ */
+function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, asks: string): string | null {
+  if (q > curve.flowMax) {
+    const [flow, end] = qtPair("flow", q, curve.flowMax);
+    return `${flow} is past the curve's end at full speed (${end} as published, 100 %): no speed up to 100 % puts it on the curve ${NO_OVERSPEED}`;
+  }
+  const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
+  if (q < lowStart) {
+    const [flow, start] = qtPair("flow", q, lowStart);
+    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPct(minSpeed, 0)}, to 100 %: at ${fmtPct(minSpeed, 0)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
+  }
+  const hp = q >= curve.flowMin ? headAt(curve, q) : null;
+  if (hp === null || !(hp < head)) return null;
+  const [gives, needs] = qtPair("head", hp, head);
+  return `at ${qt("flow", q)} the pump gives ${gives} at full speed (100 %), ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: no speed up to 100 % meets this step ${NO_OVERSPEED}`;
+}
+
 /**
  * Operating point, speed, efficiencies, electrical input and energy at each step, and the total per year.
  * @param input see {@link DutyCycleInput} (SI: m³/s, m, W, kg/m³, h)
@@ -225,7 +249,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (f > MAX_FLOW_FRACTION) throw new EngineInputError(`profile[${i}].flowFraction`, `is above ${MAX_FLOW_FRACTION} (150 % of the design flow)`);
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
-  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${totalHours.toFixed(0)} h, more than a year (8784 h)`);
+  // The total to 2 decimals, or with those that set it apart from 8784 h (never "8784 h, more than a year (8784 h)").
+  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : fmtNumExact(totalHours, [8784])} h, more than a year (8784 h)`);
   // Only the pressure modes hold a set point; system-curve control follows the system, downhill included.
   const pressureSet = mode === "constant-pressure" || mode === "proportional-pressure";
   const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
@@ -247,7 +272,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
-      if (hp === null) return none("beyond-curve", `${qt("flow", q)} is outside the pump's curve (${qt("flow", curve.flowMin)}–${qt("flow", curve.flowMax)}) at fixed speed`);
+      // The flow kept apart from both ends (never "20.0 m³/h is outside … –20.0 m³/h").
+      if (hp === null) return none("beyond-curve", `${qtExact("flow", q, [curve.flowMin, curve.flowMax])} is outside the pump's curve (${qtLimit("flow", curve.flowMin, [q])}–${qtLimit("flow", curve.flowMax, [q])}) at fixed speed`);
       if (hp < hSys * (1 - 1e-9)) {
         const [gives, system] = qtPair("head", hp, hSys); // never read as equal beside "below"
         return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
@@ -295,7 +321,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         throttled = `at ${fmtPct(n)} speed, the lowest where ${qt("flow", q)} is on the curve (its end: ${qt("flow", curve.flowMax)} as published at full speed); the pump gives ${gives}, ${asks} ${needs}: ${qt("head", hPump - head)} throttled by a valve or the system's balancing (common practice: a drive is not run below the speed at which the flow leaves the curve); energy at this speed and flow with the pump's head`;
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
-        return none("beyond-curve", `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
+        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, asks) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);

@@ -24,6 +24,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
+import { fmtNumExact } from "~/engine/quantityText";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -71,12 +72,18 @@ export const EnergySettingsSchema = v.pipe(
 
 /** Hours in a year at most: a leap year, 366 days × 24 h. */
 export const HOURS_PER_YEAR_MAX = 366 * 24;
+/**
+ * A running total of hours is past the year only beyond 1e-9 of it (about 32 ms), the engine's own tolerance (dutyCycle.ts):
+ * steps typed in hundredths that add up to 8784 h exactly sum in binary to 8784.000000000002 h.
+ */
+const pastYear = (t: number) => t > HOURS_PER_YEAR_MAX * (1 + 1e-9);
 /** The first step where the running total of hours passes a year (HOURS_PER_YEAR_MAX), or −1. */
 export function stepPastYear(profile: readonly { hours: number }[]): number {
   let t = 0;
-  return profile.findIndex((x) => (t += x.hours) > HOURS_PER_YEAR_MAX);
+  return profile.findIndex((x) => pastYear((t += x.hours)));
 }
-const hoursText = (h: number) => `${Number(h.toFixed(2))} h`;
+/** Hours to 2 decimals; a total past the year with the decimals that set it apart from 8784 h (never "8784 h, more than … 8784 h"). */
+const hoursText = (h: number) => `${pastYear(h) && Number(h.toFixed(2)) <= HOURS_PER_YEAR_MAX ? fmtNumExact(h, [HOURS_PER_YEAR_MAX]) : Number(h.toFixed(2))} h`;
 /** Why the steps do not fit in a year, with the rule and the numbers (k: the step where the running total passes it). */
 export function stepsOverYear(profile: readonly { hours: number }[], k: number): string {
   const total = profile.reduce((t, x) => t + x.hours, 0);
