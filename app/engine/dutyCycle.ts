@@ -13,7 +13,8 @@
  *                            reference control curve as EN 16297-1 for circulators, from memory)
  *   `system-curve`           H = the system's head at Q (ideal control: no excess head)
  *   with H_set = the system's head at the design flow. Speed by the affinity laws (Q ∝ N, H ∝ N²,
- *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %. A step
+ *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 % of the curve's
+ *   (up to a candidate's set speed where it is set above its curve's, at most 120 %: `maxSpeedRatio`). A step
  *   that would need less than the lowest speed runs at the lowest speed, throttled (common practice).
  *   A step whose duty point lies past the curve's end at every speed that keeps its flow on the curve (the pump gives more
  *   head than asked where the flow first reaches the curve's last published point, and below that speed the flow is off
@@ -184,6 +185,11 @@ export interface DutyCycleInput {
   /** Lowest speed ratio (default 0.3, as the verdict's speed range). */
   minSpeedRatio?: number;
   /**
+   * Highest speed ratio the drive runs the curve at (default 1, its full speed; up to 1.2 for a candidate set above its
+   * curve's speed, the candidate's set speed). Speed ratios stay fractions of the curve's speed.
+   */
+  maxSpeedRatio?: number;
+  /**
    * Why the system needs no pump head at a flow (m³/s) where its head is ≤ 0, in words with its parts and numbers — one
    * clause naming what drives the flow (the caller knows the system's static head and pressure difference; without it
    * the step names both together).
@@ -191,28 +197,35 @@ export interface DutyCycleInput {
   noHeadReason?: (flow: number) => string;
 }
 
-/** The highest speed a drive runs the pump at: its full (as-installed) speed, ratio 1. */
-const NO_OVERSPEED = "(the drive does not run the pump above its full speed)";
 
 /**
  * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
  * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
  * reach at full speed (`asks`: whose head it is). Null where none of these holds (the solver's own words then).
  */
-function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, asks: string): string | null {
-  if (q > curve.flowMax) {
-    const [flow, end] = qtPair("flow", q, curve.flowMax);
-    return `${flow} is past the curve's end at full speed (${end} as published, 100 %): no speed up to 100 % puts it on the curve ${NO_OVERSPEED}`;
+function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string): string | null {
+  // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
+  const set = maxSpeed > 1;
+  const top = set ? `${fmtPct(maxSpeed, 0)} speed (the candidate's set speed)` : "full speed (100 %)";
+  const upTo = `no speed up to ${fmtPct(maxSpeed, 0)}`;
+  const noOverspeed = `(the drive does not run the pump above ${set ? "the candidate's set speed" : "its full speed"})`;
+  if (q > curve.flowMax * maxSpeed) {
+    const [flow, end] = qtPair("flow", q, curve.flowMax * maxSpeed);
+    return set
+      ? `${flow} is past the curve's end at ${top} (${end} there; ${qt("flow", curve.flowMax)} as published at 100 %): ${upTo} puts it on the curve ${noOverspeed}`
+      : `${flow} is past the curve's end at full speed (${end} as published, 100 %): ${upTo} puts it on the curve ${noOverspeed}`;
   }
   const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
   if (q < lowStart) {
     const [flow, start] = qtPair("flow", q, lowStart);
     return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPct(minSpeed, 0)}, to 100 %: at ${fmtPct(minSpeed, 0)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
   }
-  const hp = q >= curve.flowMin ? headAt(curve, q) : null;
-  if (hp === null || !(hp < head)) return null;
+  const h1 = q / maxSpeed >= curve.flowMin ? headAt(curve, q / maxSpeed) : null; // at the highest speed (affinity laws)
+  if (h1 === null) return null;
+  const hp = h1 * maxSpeed * maxSpeed;
+  if (!(hp < head)) return null;
   const [gives, needs] = qtPair("head", hp, head);
-  return `at ${qt("flow", q)} the pump gives ${gives} at full speed (100 %), ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: no speed up to 100 % meets this step ${NO_OVERSPEED}`;
+  return `at ${qt("flow", q)} the pump gives ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
 }
 
 /**
@@ -240,6 +253,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (vfd && etaD === null) throw new EngineInputError("driveEfficiency", `control mode "${mode}" runs on a drive: give its efficiency`);
   const minSpeed = requirePositive("minSpeedRatio", input.minSpeedRatio ?? 0.3);
   if (minSpeed >= 1) throw new EngineInputError("minSpeedRatio", "must be below 1");
+  const maxSpeed = requirePositive("maxSpeedRatio", input.maxSpeedRatio ?? 1);
+  if (maxSpeed < 1 || maxSpeed > 1.2 * (1 + 1e-9)) throw new EngineInputError("maxSpeedRatio", "must be from 1 (full speed) to 1.2");
   if (!Array.isArray(input.profile)) throw new EngineInputError("profile", "must be a list of steps");
   if (input.profile.length === 0) throw new EngineInputError("profile", "is empty: give at least one step (flow fraction and hours)");
   if (input.profile.length > MAX_STEPS) throw new EngineInputError("profile", `has more than ${MAX_STEPS} steps`);
@@ -302,7 +317,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
           return none("control-below-system", `the control curve gives ${gives} at ${qt("flow", q)} but the system needs ${needs} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
-      const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
+      const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: maxSpeed });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
         // the point on the lowest-speed curve at this flow (affinity laws).
@@ -322,7 +337,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
         const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
-        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, asks) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);

@@ -24,7 +24,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtNumExact } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct } from "~/engine/quantityText";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -197,15 +197,19 @@ export function candidateEnergy(
         powerDensity: density,
         riseTolerance: 1,
       });
-      // A VFD may run up to the pump's full speed: undo a speed setting of the candidate (affinity laws).
+      // A VFD may run up to the pump's full speed, or up to the candidate's set speed where it is set above its curve's
+      // (a typed ratio up to 1.2, the speed its own figures meet the duty at): undo a speed setting of the candidate
+      // (affinity laws), so speeds are fractions of the curve's speed.
+      const overspeed = mode.vfd && c.adjustment.method === "speed" && r.ratio > 1 ? r.ratio : undefined;
       if (mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1) curve = scaleBySpeed(curve, 1 / r.ratio).curve;
+      if (overspeed) out.assumptions.push(`The drive runs the pump up to the candidate's set speed, ${fmtPct(overspeed)} of its curve's (the speeds of the duty cycle are fractions of the curve's speed).`);
       const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
       const prepared = prepareSystem(systemSpec);
       const sysHead = systemHeadFunction(prepared);
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive, noHeadReason });
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed });
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [
