@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import { lccShown, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { lccRatesText, lccShown, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
@@ -99,7 +99,7 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
           {first.assumptions.map((a) => (
             <li key={a}>{a}</li>
           ))}
-          {first.lcc ? <li>Life-cycle cost: {first.lcc.source}.</li> : null}
+          {first.lcc ? <li>Life-cycle cost: {lccRatesText(first.lcc)}; {first.lcc.source}.</li> : null}
         </ul>
       ) : null}
     </section>

@@ -24,7 +24,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtNumExact, fmtPct } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -276,6 +276,17 @@ export function noStepCounted(cycle: { totalHours: number; steps: readonly { sta
 /** The life-cycle cost to show: none where no step was counted (`noStepCounted`; selections frozen before kept one). */
 export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnergy["cycle"] } | null | undefined): LifeCycleResult | null =>
   e?.lcc && !noStepCounted(e.cycle) ? e.lcc : null;
+
+/**
+ * The life-cycle cost's period and the rates it rests on, as typed: "over 15 years at a tariff escalation of +3 %/year and
+ * a discount rate of 5 %/year"; the period alone for a cost frozen before the rates were kept with it.
+ */
+export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" | "discountRate">): string {
+  const years = `over ${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
+  if (lcc.escalation == null || lcc.discountRate == null) return years;
+  const e = lcc.escalation;
+  return `${years} at a tariff escalation of ${e < 0 ? "−" : "+"}${fmtPctLimit(Math.abs(e))}/year and a discount rate of ${fmtPctLimit(lcc.discountRate)}/year`;
+}
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {
