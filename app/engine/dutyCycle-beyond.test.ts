@@ -69,3 +69,23 @@ describe("a fixed-speed step off the curve: its flow never reads as the curve's 
     expect(inSI(s.message)).toBe("20.00002 m³/h is outside the pump's curve (0.000 m³/h–20.0 m³/h) at fixed speed"); // the reading with the decimals that set it apart (quantityText.ts qtExact)
   });
 });
+
+describe("a VFD step below the drive's lowest speed: held there, throttled, said at the step with its numbers", () => {
+  it("system-curve control at 10 %: 30 % speed, the pump's 1.78 m beside the system's 0.180 m, 1.60 m throttled; met and counted", () => {
+    // Hand (affinity laws): Q = 1 m³/h; at 30 % speed the full-speed point is 1/0.3 = 3.333 m³/h, H = 20 − 0.02 × 3.333² = 19.778 m,
+    // × 0.3² = 1.780 m; the system needs 18 m × 0.1² = 0.180 m; 1.600 m throttled.
+    const r = dutyCycleEnergy({ ...knotCycle(), mode: "system-curve", driveEfficiency: 0.97, profile: [{ flowFraction: 0.1, hours: 1000 }] });
+    expect(r.steps[0].status).toBe("ok");
+    expect(r.steps[0].speedRatio).toBe(0.3);
+    expect(r.steps[0].head).toBeCloseTo(1.78, 2);
+    expect(r.steps[0].energyKWh!).toBeGreaterThan(0);
+    const w = r.warnings.filter((x) => x.code === "held-at-min-speed");
+    expect(w.map((x) => x.parameter)).toEqual(["profile[0]"]);
+    expect(inSI(w[0].message)).toBe("at 10 % flow the drive holds its lowest speed, 30 % (common practice, assumed: check the drive's and the pump's minimum speed): the pump gives 1.78 m at 1.00 m³/h, the system needs 0.180 m, so 1.60 m is throttled by a valve; the energy is at this speed with the pump's head");
+  });
+  it("flips at the lowest speed: on this system's affinity parabola a step at 30 % flow needs 30 % speed (no note), at 29.9 % it is held there", () => {
+    const notes = (f: number) => dutyCycleEnergy({ ...knotCycle(), mode: "system-curve", driveEfficiency: 0.97, profile: [{ flowFraction: f, hours: 1000 }] }).warnings.filter((x) => x.code === "held-at-min-speed");
+    expect(notes(0.3)).toEqual([]);
+    expect(notes(0.299)).toHaveLength(1);
+  });
+});

@@ -323,10 +323,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         // the point on the lowest-speed curve at this flow (affinity laws).
         const q1 = q / minSpeed;
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
-        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there`, head);
+        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there (at ${fmtPct(minSpeed, 0)} speed it spans ${qt("flow", curve.flowMin * minSpeed)}–${qt("flow", curve.flowMax * minSpeed)})`, head);
+        const asked = head;
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
+        // Said at the step with its numbers: the energy is at the pump's head at the lowest speed, not the head asked.
+        const [gives, needs] = qtPair("head", head, asked);
+        warnings.push({ code: "held-at-min-speed", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the drive holds its lowest speed, ${fmtPct(minSpeed, 0)} (common practice, assumed: check the drive's and the pump's minimum speed): the pump gives ${gives} at ${qt("flow", q)}, ${mode === "system-curve" ? "the system needs" : "the control curve asks"} ${needs}, so ${qt("head", head - asked)} is throttled by a valve; the energy is at this speed with the pump's head` });
       } else if (sol.status === "outside-curve" && sol.edge?.at === "end") {
         // Past the curve's end at every on-curve speed: held at the lowest on-curve speed, the surplus throttled (module comment).
         n = sol.edge.ratio;
