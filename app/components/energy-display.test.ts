@@ -129,3 +129,13 @@ describe("an implausible tariff escalation is said wherever the life-cycle cost 
     expect(panel(energyOf(energy({ escalation: 0.15 + 1e-6, years: 2 })))).toMatch(/▲ tariff escalation 15\.0001 %\/year makes year 2's energy cost 1\.15 × year 1's \(above 15 %\/year\)/);
   });
 });
+
+describe("a life-cycle cost over 1 year reads '1 year' (was '1 years')", () => {
+  it("the table's cell, the panel's line and the report's list; 2 years reads '2 years'", () => {
+    const one = energyOf(energy({ years: 1 }));
+    expect(rows(one)["Life-cycle cost (present value)"]).toMatch(/^[\d.]+ EUR over 1 year$/);
+    expect(panel(one)).toMatch(/Life-cycle cost over 1 year: [\d.]+ EUR = purchase/);
+    expect(report(one)).toMatch(/Life-cycle cost: over 1 year at a tariff escalation of \+3 %\/year and a discount rate of 5 %\/year; /);
+    expect(rows(energyOf(energy({ years: 2 })))["Life-cycle cost (present value)"]).toMatch(/^[\d.]+ EUR over 2 years$/);
+  });
+});

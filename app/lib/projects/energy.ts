@@ -281,8 +281,11 @@ export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnerg
  * The life-cycle cost's period and the rates it rests on, as typed: "over 15 years at a tariff escalation of +3 %/year and
  * a discount rate of 5 %/year"; the period alone for a cost frozen before the rates were kept with it.
  */
+/** A life-cycle cost's period: "1 year", "15 years". */
+export const lccYears = (lcc: Pick<LifeCycleResult, "yearly">): string => `${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
+
 export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" | "discountRate">): string {
-  const years = `over ${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
+  const years = `over ${lccYears(lcc)}`;
   if (lcc.escalation == null || lcc.discountRate == null) return years;
   const e = lcc.escalation;
   return `${years} at a tariff escalation of ${e < 0 ? "−" : "+"}${fmtPctLimit(Math.abs(e))}/year and a discount rate of ${fmtPctLimit(lcc.discountRate)}/year`;
