@@ -177,9 +177,10 @@ export interface DutyCycleInput {
   density: number;
   /**
    * Motor rated output W (all duty motors together), rated efficiency (fraction) and service factor (dimensionless,
-   * 1–1.5; absent: 1, the strictest): a step that loads the motor above rating × service factor is warned of.
+   * 1–1.5; absent: 1, the strictest): a step that loads the motor above rating × service factor is warned of. `units`:
+   * the number of equal motors sharing the load (duty pumps in parallel or series; absent: 1), whose notes are each one's.
    */
-  motor: { rating: number; efficiency: number; serviceFactor?: number };
+  motor: { rating: number; efficiency: number; serviceFactor?: number; units?: number };
   /** Drive rated efficiency (fraction), or null without a drive (VFD modes need one). */
   driveEfficiency: number | null;
   /** Lowest speed ratio (default 0.3, as the verdict's speed range). */
@@ -248,6 +249,10 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (etaM > 1) throw new EngineInputError("motor.efficiency", "is a fraction 0–1");
   const sf = input.motor.serviceFactor === undefined ? 1 : requirePositive("motor.serviceFactor", input.motor.serviceFactor);
   if (sf < 1 || sf > 1.5) throw new EngineInputError("motor.serviceFactor", "must be between 1.0 and 1.5");
+  // Equal motors sharing the load (pumps in parallel or series; absent: 1): the motor notes are each one's.
+  const units = input.motor.units === undefined ? 1 : requirePositive("motor.units", input.motor.units);
+  if (!Number.isInteger(units)) throw new EngineInputError("motor.units", "is a whole number of motors");
+  const theMotor = units === 1 ? "the motor" : `each of the ${units} motors`;
   const etaD = input.driveEfficiency === null || input.driveEfficiency === undefined ? null : requirePositive("driveEfficiency", input.driveEfficiency);
   if (etaD !== null && etaD > 1) throw new EngineInputError("driveEfficiency", "is a fraction 0–1");
   if (vfd && etaD === null) throw new EngineInputError("driveEfficiency", `control mode "${mode}" runs on a drive: give its efficiency`);
@@ -357,11 +362,11 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const x = shaft / rating;
     // `parameter` names the step (profile[i]), so a page can show the warning at it.
     // (1e-9: a load computed a rounding error below 10 %, as 75 W / 750 W at half speed, is 10 %.)
-    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
+    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
     if (!limitCovers(motorLimit(rating, sf), shaft))
-      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPctExact(x, [sf], 0)} load, above its rating × service factor ${fmtPct(sf, 0)}: the shaft power ${qtExact("power", shaft, [rating * sf])} exceeds ${qtLimit("power", motorLimit(rating, sf), [shaft])}, so the motor overloads at this step (its efficiency taken at full load)` });
+      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], 0)} load, above its rating × service factor ${fmtPct(sf, 0)}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
