@@ -190,6 +190,8 @@ export interface DutyCycleInput {
    * curve's speed, the candidate's set speed). Speed ratios stay fractions of the curve's speed.
    */
   maxSpeedRatio?: number;
+  /** At fixed speed: the speed the curve is at, a fraction of the curve's own (a candidate set to a speed by a drive; default 1), named in the step's text and speed ratio. */
+  fixedSpeedRatio?: number;
   /**
    * Why the system needs no pump head at a flow (m³/s) where its head is ≤ 0, in words with its parts and numbers — one
    * clause naming what drives the flow (the caller knows the system's static head and pressure difference; without it
@@ -259,6 +261,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   const minSpeed = requirePositive("minSpeedRatio", input.minSpeedRatio ?? 0.3);
   if (minSpeed >= 1) throw new EngineInputError("minSpeedRatio", "must be below 1");
   const maxSpeed = requirePositive("maxSpeedRatio", input.maxSpeedRatio ?? 1);
+  const fixedRatio = requirePositive("fixedSpeedRatio", input.fixedSpeedRatio ?? 1);
   if (maxSpeed < 1 || maxSpeed > 1.2 * (1 + 1e-9)) throw new EngineInputError("maxSpeedRatio", "must be from 1 (full speed) to 1.2");
   if (!Array.isArray(input.profile)) throw new EngineInputError("profile", "must be a list of steps");
   if (input.profile.length === 0) throw new EngineInputError("profile", "is empty: give at least one step (flow fraction and hours)");
@@ -299,6 +302,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       }
       head = hp;
+      n = fixedRatio;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
     } else {
@@ -373,7 +377,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
       energyKWh: (electricalPower * s.hours) / 1000, status: throttled ? "throttled-at-min-on-curve-speed" : "ok",
-      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled"),
+      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
     };
   });
   const complete = steps.every((s) => stepCounted(s) || s.hours === 0);

@@ -49,3 +49,19 @@ describe("a candidate set at 115 % of its curve's speed, under a drive's control
     expect(inSI(s.message)).toMatch(/^at 60\.0 m³\/h the pump gives [\d.]+ m at 115 % speed \(the candidate's set speed\), [\d.]+ % below the [\d.]+ m the system needs there: no speed up to 115 % meets this step \(the drive does not run the pump above the candidate's set speed\)$/);
   });
 });
+
+describe("a candidate set to a speed by a drive, on a fixed-speed cycle", () => {
+  it("reads its set speed, not 'full speed': 90.0 % of the curve's, throttled; at its curve's own speed, 'full speed, throttled'", () => {
+    const base = defaultSystemInput();
+    const input: SystemInput = { ...base, energy: { ...base.energy!, control: "fixed-speed", profile: [{ flowFraction: 0.5, hours: 1000 }] } };
+    const at = (ratio: number) => {
+      const adj = { ...DEFAULT_ADJUSTMENT, method: "speed" as const, ratio };
+      return candidateEnergy(input, systemSpec(input), fluidOf(input).density, { adjustment: adj, result: evaluateCandidate(input, SET, adj) }, null).cycle!.steps[0];
+    };
+    const s = at(0.9);
+    expect(s.status).toBe("ok");
+    expect(s.message).toBe("at its set speed 90.0 %, throttled");
+    expect(s.speedRatio).toBeCloseTo(0.9, 9); // a fraction of the curve's speed, as under a drive's control
+    expect(at(1).message).toBe("full speed, throttled");
+  });
+});

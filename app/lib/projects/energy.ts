@@ -209,7 +209,8 @@ export function candidateEnergy(
       const sysHead = systemHeadFunction(prepared);
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed });
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined });
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [
