@@ -96,7 +96,7 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       />
       {first ? (
         <ul className="list-disc pl-5 text-xs text-slate-600">
-          {first.assumptions.map((a) => (
+          {panelAssumptions(candidates).map((a) => (
             <li key={a}>{a}</li>
           ))}
           {first.lcc ? <li>Life-cycle cost: {lccRatesText(first.lcc)}; {first.lcc.source}.</li> : null}
@@ -104,6 +104,18 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       ) : null}
     </section>
   );
+}
+
+/**
+ * The assumptions every candidate's cycle rests on, once; then one candidate's own (a set speed above its curve's, a
+ * viscous liquid's B at its slowest step) under its number and label — it showed the first candidate's list only.
+ */
+export function panelAssumptions(candidates: readonly { label: string; energy?: Energy | null }[]): string[] {
+  const lists = candidates.map((c) => c.energy?.assumptions ?? null);
+  const given = lists.filter((l): l is string[] => l !== null);
+  const shared = (given[0] ?? []).filter((a) => given.every((l) => l.includes(a)));
+  const own = candidates.flatMap((c, i) => (lists[i] ?? []).filter((a) => !shared.includes(a)).map((a) => `${i + 1} ${c.label}: ${a}`));
+  return [...shared, ...own];
 }
 
 /** What the total row says when the rows as printed do not add up to it ("" when they do). */

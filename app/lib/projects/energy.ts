@@ -99,6 +99,8 @@ type InputLike = {
   /** The system's mode and pressure difference (Pa): what a step needing no pump head names as its cause (duty-check.ts). */
   mode: SystemInput["mode"];
   pressureDifference: number;
+  /** The liquid (its name in the viscosity note of a cycle under a drive). */
+  fluid?: SystemInput["fluid"];
   hoursPerYear: number;
   tariffPerKWh: number;
   duty: { flow: number; head: number } | null;
@@ -141,6 +143,9 @@ type EvaluatedLike = {
     curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
     operating: { flow: number; head: number } | null;
     figures: { motor: { rating: number | null; efficiency: number | null } } | null;
+    /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
+    viscosityB?: number | null;
+    viscosity?: { status: string } | null;
   } | null;
 };
 
@@ -211,6 +216,8 @@ export function candidateEnergy(
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
       out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
         fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined });
+      const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
+      if (visc) out.assumptions.push(visc);
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [
@@ -229,6 +236,27 @@ export function candidateEnergy(
     }
   }
   return out;
+}
+
+/**
+ * On a viscous liquid under a drive: the curve corrected (ANSI/HI 9.6.7) at the candidate's speed is taken to each step's
+ * speed by the affinity laws, B not worked out again; B ∝ N^−0.5 along the affinity parabola (B ∝ H^0.0625 / (Q^0.375 ·
+ * N^0.25), H ∝ N², Q ∝ N), so the slowest counted step's B is said with its numbers. Null on water, where no step runs
+ * below the candidate's speed, or where the curve was not judged by B (no BEP, outside the method: their own warnings).
+ */
+function viscousNote(input: InputLike, r: NonNullable<EvaluatedLike["result"]>, method: EvaluatedLike["adjustment"]["method"], cycle: DutyCycleResult): string | null {
+  const b = r.viscosityB;
+  const status = r.viscosity?.status;
+  if (b == null || !(b > 0) || (status !== "corrected" && status !== "no-correction") || cycle.mode === "fixed-speed") return null;
+  const ref = method === "speed" && r.ratio > 0 ? r.ratio : 1; // the speed B was worked out at, a fraction of the curve's
+  const speeds = cycle.steps.filter((s) => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status) && s.speedRatio != null && s.speedRatio > 0).map((s) => s.speedRatio!);
+  const slowest = speeds.length > 0 ? Math.min(...speeds) : null;
+  if (slowest === null || !(slowest < ref)) return null;
+  const bStep = b * (ref / slowest) ** 0.5;
+  if (status === "no-correction" && !(bStep > 1)) return null;
+  const liquid = input.fluid?.kind === "custom" ? input.fluid.name || "the custom liquid" : "the liquid";
+  const curveWords = status === "corrected" ? "the curve as corrected for viscosity (ANSI/HI 9.6.7)" : "the water curve, which needs no viscosity correction (ANSI/HI 9.6.7, B ≤ 1)";
+  return `On ${liquid}, ${curveWords} at the candidate's speed, B = ${b.toFixed(2)}, is taken to each step's speed by the affinity laws; B is not worked out again at each speed: it grows as the speed falls (B ∝ N^−0.5 along the affinity parabola), to ${bStep.toFixed(2)} at the slowest step's ${(slowest * 100).toFixed(1)} % speed, where the correction, and the energy, may be larger than shown.`;
 }
 
 /** A duty cycle as computed or frozen: its steps and the engine's warnings (frozen before warnings named their step: no `parameter`). */
