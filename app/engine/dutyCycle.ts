@@ -287,7 +287,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       ...base, head, speedRatio, efficiency: null, shaftPower: null, loadFraction: null, motorEfficiency: null, driveEfficiency: null, electricalPower: null, energyKWh: null, status, message,
     });
     let head: number;
-    let n = 1;
+    let n: number;
     let shaft: number | null;
     let eta: number | null;
     let lowest = false;
