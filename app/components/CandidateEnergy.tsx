@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import { lccShown, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
@@ -52,7 +52,7 @@ export const lccWarnings = (lcc: Energy["lcc"] | undefined): string[] => (lcc?.w
  */
 export function lccText(e: Energy | null | undefined, currency: string): string {
   const lcc = lccShown(e);
-  if (lcc) return `${moneyText(lcc.total, currency)} over ${lcc.yearly.length} years${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  if (lcc) return `${moneyText(lcc.total, currency)} over ${lccYears(lcc)}${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
   const none = noStepCounted(e?.cycle);
   if (none) return `not computed (${none})`;
   return e?.costMissing ? `— (${e.costMissing})` : "—";
@@ -96,14 +96,26 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       />
       {first ? (
         <ul className="list-disc pl-5 text-xs text-slate-600">
-          {first.assumptions.map((a) => (
+          {panelAssumptions(candidates).map((a) => (
             <li key={a}>{a}</li>
           ))}
-          {first.lcc ? <li>Life-cycle cost: {first.lcc.source}.</li> : null}
+          {first.lcc ? <li>Life-cycle cost: {lccRatesText(first.lcc)}; {first.lcc.source}.</li> : null}
         </ul>
       ) : null}
     </section>
   );
+}
+
+/**
+ * The assumptions every candidate's cycle rests on, once; then one candidate's own (a set speed above its curve's, a
+ * viscous liquid's B at its slowest step) under its number and label — it showed the first candidate's list only.
+ */
+export function panelAssumptions(candidates: readonly { label: string; energy?: Energy | null }[]): string[] {
+  const lists = candidates.map((c) => c.energy?.assumptions ?? null);
+  const given = lists.filter((l): l is string[] => l !== null);
+  const shared = (given[0] ?? []).filter((a) => given.every((l) => l.includes(a)));
+  const own = candidates.flatMap((c, i) => (lists[i] ?? []).filter((a) => !shared.includes(a)).map((a) => `${i + 1} ${c.label}: ${a}`));
+  return [...shared, ...own];
 }
 
 /** What the total row says when the rows as printed do not add up to it ("" when they do). */
@@ -223,7 +235,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
       ) : null}
       {lcc ? (
         <p className="text-xs" data-testid={`lcc-${c.id}`}>
-          Life-cycle cost over {lcc.yearly.length} years: <strong>{moneyText(lcc.total, currency)}</strong> = purchase {lcc.purchaseGiven ? moneyText(lcc.purchase, currency) : "not given (0)"} + energy {moneyText(lcc.energyPresentValue, currency)} (present value)
+          Life-cycle cost over {lccYears(lcc)}: <strong>{moneyText(lcc.total, currency)}</strong> = purchase {lcc.purchaseGiven ? moneyText(lcc.purchase, currency) : "not given (0)"} + energy {moneyText(lcc.energyPresentValue, currency)} (present value)
           {moneySumNote([lcc.purchase, lcc.energyPresentValue], lcc.total, currency)}
           {e?.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
         </p>

@@ -1,5 +1,5 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
-import { lccShown, noStepCounted, type CandidateEnergy } from "~/lib/projects/energy";
+import { lccRatesText, lccShown, noStepCounted, type CandidateEnergy } from "~/lib/projects/energy";
 import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleNoteLines } from "~/components/cycle-notes";
@@ -42,7 +42,7 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
           {e.assumptions.map((a) => (
             <li key={a}>{a}</li>
           ))}
-          {lcc ? <li>Life-cycle cost: {lcc.source}.</li> : null}
+          {lcc ? <li>Life-cycle cost: {lccRatesText(lcc)}; {lcc.source}.</li> : null}
         </ul>
       </div>
     </section>

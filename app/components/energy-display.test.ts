@@ -129,3 +129,24 @@ describe("an implausible tariff escalation is said wherever the life-cycle cost 
     expect(panel(energyOf(energy({ escalation: 0.15 + 1e-6, years: 2 })))).toMatch(/▲ tariff escalation 15\.0001 %\/year makes year 2's energy cost 1\.15 × year 1's \(above 15 %\/year\)/);
   });
 });
+
+describe("a life-cycle cost over 1 year reads '1 year' (was '1 years')", () => {
+  it("the table's cell, the panel's line and the report's list; 2 years reads '2 years'", () => {
+    const one = energyOf(energy({ years: 1 }));
+    expect(rows(one)["Life-cycle cost (present value)"]).toMatch(/^[\d.]+ EUR over 1 year$/);
+    expect(panel(one)).toMatch(/Life-cycle cost over 1 year: [\d.]+ EUR = purchase/);
+    expect(report(one)).toMatch(/Life-cycle cost: over 1 year at a tariff escalation of \+3 %\/year and a discount rate of 5 %\/year; /);
+    expect(rows(energyOf(energy({ years: 2 })))["Life-cycle cost (present value)"]).toMatch(/^[\d.]+ EUR over 2 years$/);
+  });
+});
+
+describe("the system page's assumptions under the cycles: each candidate's own too", () => {
+  it("shared ones once; one candidate's own under its number (it showed the first candidate's list only)", () => {
+    const a = energyOf({});
+    const own = "The drive runs the pump up to the candidate's set speed, 115.0 % of its curve's (the speeds of the duty cycle are fractions of the curve's speed).";
+    const b = { ...energyOf({}), assumptions: [...a.assumptions, own] }; // as candidateEnergy adds it (energy-overspeed.test.ts)
+    const html = text(renderToStaticMarkup(createElement(CandidateEnergyPanel, { candidates: [{ id: 1, label: "Pump A", energy: a }, { id: 2, label: "Pump B", energy: b }], unitSystem: SI_UNITS, currency: "EUR", canWrite: false })));
+    expect(html).toContain(`2 Pump B: ${own}`);
+    expect(html.split(a.assumptions[0]).length - 1).toBe(1); // a shared one once
+  });
+});

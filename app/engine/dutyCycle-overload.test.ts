@@ -23,3 +23,19 @@ describe("a step above the motor's rating × service factor", () => {
     expect(inSI(w[0].message)).toMatch(/^at 100 % flow the motor runs at 115\.2 % load, above its rating × service factor 115 %: the shaft power 0\.600 kW exceeds 0\.599 kW, so the motor overloads at this step/);
   });
 });
+
+describe("pumps in parallel or series: each motor is one pump's, so the motor notes are per motor", () => {
+  it("2 motors of 299.5 W (599 W together) at 600 W together: each runs at 100.2 % load, one pump's 0.300 kW beside its 0.2995 kW (printed 0.299 kW)", () => {
+    // The same load shared by 2 equal pumps: 600 W / 2 = 300 W each against 299.5 W × service factor 1.
+    const w = overloads({ rating: 599, efficiency: 0.8, units: 2 });
+    expect(w.map((x) => x.parameter)).toEqual(["profile[0]"]);
+    expect(inSI(w[0].message)).toBe("at 100 % flow each of the 2 motors runs at 100.2 % load, above its rating × service factor 100 %: one pump's shaft power 0.300 kW exceeds 0.299 kW, so each motor overloads at this step (its efficiency taken at full load)");
+    expect(overloads({ rating: 600, efficiency: 0.8, units: 2 })).toEqual([]); // the flip: 300 W each is covered
+  });
+  it("below 10 % load: said of each motor", () => {
+    // 2 × 3000 W motors, 600 W together: each at 10 % of 3000 W… 300 W / 3000 W = 10 % (no note); 6001 W together: 9.998 %.
+    const light = (rating: number) => dutyCycleEnergy({ ...base, motor: { rating, efficiency: 0.8, units: 2 }, profile: [{ flowFraction: 1, hours: 1000 }] }).warnings.filter((x) => x.code === "motor-very-light-load");
+    expect(light(6000)).toEqual([]);
+    expect(light(6001).map((x) => x.message)).toEqual(["at 100 % flow each of the 2 motors runs at 9.998 % load: part-load efficiencies below 10 % load are taken at their 10 % values"]);
+  });
+});

@@ -165,6 +165,9 @@ describe("duty-cycle edges", () => {
   it("an empty profile, a year of more than 8784 h, and an unknown mode are refused", () => {
     expect(() => dutyCycleEnergy({ ...base, profile: [] })).toThrow(/empty/);
     expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 5000 }, { flowFraction: 0.5, hours: 4000 }] })).toThrow(/8784/);
+    // Just over the year (8000 + 784.01 h): said apart from 8784 h (was "adds up to 8784 h, more than a year (8784 h)").
+    expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 8000 }, { flowFraction: 0.5, hours: 784.01 }] })).toThrow("profile: adds up to 8784.01 h, more than a year (8784 h)");
+    expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 1, hours: 8000 }, { flowFraction: 0.5, hours: 784 }] })).not.toThrow(); // a leap year exactly (366 × 24 h)
     expect(() => dutyCycleEnergy({ ...base, mode: "throttle" as never })).toThrow(EngineInputError);
   });
   it("the common-practice circulator profile spreads the year's hours 6/15/35/44 % over 100/75/50/25 % flow (EN 16297-1, from memory)", () => {

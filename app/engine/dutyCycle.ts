@@ -13,7 +13,8 @@
  *                            reference control curve as EN 16297-1 for circulators, from memory)
  *   `system-curve`           H = the system's head at Q (ideal control: no excess head)
  *   with H_set = the system's head at the design flow. Speed by the affinity laws (Q ∝ N, H ∝ N²,
- *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 %. A step
+ *   P ∝ N³; efficiency constant along the affinity parabola), as in affinity.ts; speeds 30–100 % of the curve's
+ *   (up to a candidate's set speed where it is set above its curve's, at most 120 %: `maxSpeedRatio`). A step
  *   that would need less than the lowest speed runs at the lowest speed, throttled (common practice).
  *   A step whose duty point lies past the curve's end at every speed that keeps its flow on the curve (the pump gives more
  *   head than asked where the flow first reaches the curve's last published point, and below that speed the flow is off
@@ -56,7 +57,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtPct, fmtPctExact, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
@@ -176,19 +177,58 @@ export interface DutyCycleInput {
   density: number;
   /**
    * Motor rated output W (all duty motors together), rated efficiency (fraction) and service factor (dimensionless,
-   * 1–1.5; absent: 1, the strictest): a step that loads the motor above rating × service factor is warned of.
+   * 1–1.5; absent: 1, the strictest): a step that loads the motor above rating × service factor is warned of. `units`:
+   * the number of equal motors sharing the load (duty pumps in parallel or series; absent: 1), whose notes are each one's.
    */
-  motor: { rating: number; efficiency: number; serviceFactor?: number };
+  motor: { rating: number; efficiency: number; serviceFactor?: number; units?: number };
   /** Drive rated efficiency (fraction), or null without a drive (VFD modes need one). */
   driveEfficiency: number | null;
   /** Lowest speed ratio (default 0.3, as the verdict's speed range). */
   minSpeedRatio?: number;
+  /**
+   * Highest speed ratio the drive runs the curve at (default 1, its full speed; up to 1.2 for a candidate set above its
+   * curve's speed, the candidate's set speed). Speed ratios stay fractions of the curve's speed.
+   */
+  maxSpeedRatio?: number;
+  /** At fixed speed: the speed the curve is at, a fraction of the curve's own (a candidate set to a speed by a drive; default 1), named in the step's text and speed ratio. */
+  fixedSpeedRatio?: number;
   /**
    * Why the system needs no pump head at a flow (m³/s) where its head is ≤ 0, in words with its parts and numbers — one
    * clause naming what drives the flow (the caller knows the system's static head and pressure difference; without it
    * the step names both together).
    */
   noHeadReason?: (flow: number) => string;
+}
+
+
+/**
+ * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
+ * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
+ * reach at full speed (`asks`: whose head it is). Null where none of these holds (the solver's own words then).
+ */
+function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string): string | null {
+  // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
+  const set = maxSpeed > 1;
+  const top = set ? `${fmtPct(maxSpeed, 0)} speed (the candidate's set speed)` : "full speed (100 %)";
+  const upTo = `no speed up to ${fmtPct(maxSpeed, 0)}`;
+  const noOverspeed = `(the drive does not run the pump above ${set ? "the candidate's set speed" : "its full speed"})`;
+  if (q > curve.flowMax * maxSpeed) {
+    const [flow, end] = qtPair("flow", q, curve.flowMax * maxSpeed);
+    return set
+      ? `${flow} is past the curve's end at ${top} (${end} there; ${qt("flow", curve.flowMax)} as published at 100 %): ${upTo} puts it on the curve ${noOverspeed}`
+      : `${flow} is past the curve's end at full speed (${end} as published, 100 %): ${upTo} puts it on the curve ${noOverspeed}`;
+  }
+  const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
+  if (q < lowStart) {
+    const [flow, start] = qtPair("flow", q, lowStart);
+    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPct(minSpeed, 0)}, to 100 %: at ${fmtPct(minSpeed, 0)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
+  }
+  const h1 = q / maxSpeed >= curve.flowMin ? headAt(curve, q / maxSpeed) : null; // at the highest speed (affinity laws)
+  if (h1 === null) return null;
+  const hp = h1 * maxSpeed * maxSpeed;
+  if (!(hp < head)) return null;
+  const [gives, needs] = qtPair("head", hp, head);
+  return `at ${qt("flow", q)} the pump gives ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
 }
 
 /**
@@ -211,11 +251,18 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (etaM > 1) throw new EngineInputError("motor.efficiency", "is a fraction 0–1");
   const sf = input.motor.serviceFactor === undefined ? 1 : requirePositive("motor.serviceFactor", input.motor.serviceFactor);
   if (sf < 1 || sf > 1.5) throw new EngineInputError("motor.serviceFactor", "must be between 1.0 and 1.5");
+  // Equal motors sharing the load (pumps in parallel or series; absent: 1): the motor notes are each one's.
+  const units = input.motor.units === undefined ? 1 : requirePositive("motor.units", input.motor.units);
+  if (!Number.isInteger(units)) throw new EngineInputError("motor.units", "is a whole number of motors");
+  const theMotor = units === 1 ? "the motor" : `each of the ${units} motors`;
   const etaD = input.driveEfficiency === null || input.driveEfficiency === undefined ? null : requirePositive("driveEfficiency", input.driveEfficiency);
   if (etaD !== null && etaD > 1) throw new EngineInputError("driveEfficiency", "is a fraction 0–1");
   if (vfd && etaD === null) throw new EngineInputError("driveEfficiency", `control mode "${mode}" runs on a drive: give its efficiency`);
   const minSpeed = requirePositive("minSpeedRatio", input.minSpeedRatio ?? 0.3);
   if (minSpeed >= 1) throw new EngineInputError("minSpeedRatio", "must be below 1");
+  const maxSpeed = requirePositive("maxSpeedRatio", input.maxSpeedRatio ?? 1);
+  const fixedRatio = requirePositive("fixedSpeedRatio", input.fixedSpeedRatio ?? 1);
+  if (maxSpeed < 1 || maxSpeed > 1.2 * (1 + 1e-9)) throw new EngineInputError("maxSpeedRatio", "must be from 1 (full speed) to 1.2");
   if (!Array.isArray(input.profile)) throw new EngineInputError("profile", "must be a list of steps");
   if (input.profile.length === 0) throw new EngineInputError("profile", "is empty: give at least one step (flow fraction and hours)");
   if (input.profile.length > MAX_STEPS) throw new EngineInputError("profile", `has more than ${MAX_STEPS} steps`);
@@ -225,7 +272,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (f > MAX_FLOW_FRACTION) throw new EngineInputError(`profile[${i}].flowFraction`, `is above ${MAX_FLOW_FRACTION} (150 % of the design flow)`);
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
-  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${totalHours.toFixed(0)} h, more than a year (8784 h)`);
+  // The total to 2 decimals, or with those that set it apart from 8784 h (never "8784 h, more than a year (8784 h)").
+  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : fmtNumExact(totalHours, [8784])} h, more than a year (8784 h)`);
   // Only the pressure modes hold a set point; system-curve control follows the system, downhill included.
   const pressureSet = mode === "constant-pressure" || mode === "proportional-pressure";
   const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
@@ -239,7 +287,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       ...base, head, speedRatio, efficiency: null, shaftPower: null, loadFraction: null, motorEfficiency: null, driveEfficiency: null, electricalPower: null, energyKWh: null, status, message,
     });
     let head: number;
-    let n = 1;
+    let n: number;
     let shaft: number | null;
     let eta: number | null;
     let lowest = false;
@@ -247,12 +295,14 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
-      if (hp === null) return none("beyond-curve", `${qt("flow", q)} is outside the pump's curve (${qt("flow", curve.flowMin)}–${qt("flow", curve.flowMax)}) at fixed speed`);
+      // The flow kept apart from both ends (never "20.0 m³/h is outside … –20.0 m³/h").
+      if (hp === null) return none("beyond-curve", `${qtExact("flow", q, [curve.flowMin, curve.flowMax])} is outside the pump's curve (${qtLimit("flow", curve.flowMin, [q])}–${qtLimit("flow", curve.flowMax, [q])}) at fixed speed`);
       if (hp < hSys * (1 - 1e-9)) {
         const [gives, system] = qtPair("head", hp, hSys); // never read as equal beside "below"
         return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       }
       head = hp;
+      n = fixedRatio;
       shaft = shaftPowerAt(curve, q, rho);
       eta = efficiencyAt(curve, q);
     } else {
@@ -276,16 +326,20 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
           return none("control-below-system", `the control curve gives ${gives} at ${qt("flow", q)} but the system needs ${needs} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
-      const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: 1 });
+      const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: maxSpeed });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
         // the point on the lowest-speed curve at this flow (affinity laws).
         const q1 = q / minSpeed;
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
-        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there`, head);
+        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there (at ${fmtPct(minSpeed, 0)} speed it spans ${qt("flow", curve.flowMin * minSpeed)}–${qt("flow", curve.flowMax * minSpeed)})`, head);
+        const asked = head;
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
+        // Said at the step with its numbers: the energy is at the pump's head at the lowest speed, not the head asked.
+        const [gives, needs] = qtPair("head", head, asked);
+        warnings.push({ code: "held-at-min-speed", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the drive holds its lowest speed, ${fmtPct(minSpeed, 0)} (common practice, assumed: check the drive's and the pump's minimum speed): the pump gives ${gives} at ${qt("flow", q)}, ${mode === "system-curve" ? "the system needs" : "the control curve asks"} ${needs}, so ${qt("head", head - asked)} is throttled by a valve; the energy is at this speed with the pump's head` });
       } else if (sol.status === "outside-curve" && sol.edge?.at === "end") {
         // Past the curve's end at every on-curve speed: held at the lowest on-curve speed, the surplus throttled (module comment).
         n = sol.edge.ratio;
@@ -295,7 +349,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         throttled = `at ${fmtPct(n)} speed, the lowest where ${qt("flow", q)} is on the curve (its end: ${qt("flow", curve.flowMax)} as published at full speed); the pump gives ${gives}, ${asks} ${needs}: ${qt("head", hPump - head)} throttled by a valve or the system's balancing (common practice: a drive is not run below the speed at which the flow leaves the curve); energy at this speed and flow with the pump's head`;
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
-        return none("beyond-curve", `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
+        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
@@ -311,18 +366,18 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const x = shaft / rating;
     // `parameter` names the step (profile[i]), so a page can show the warning at it.
     // (1e-9: a load computed a rounding error below 10 %, as 75 W / 750 W at half speed, is 10 %.)
-    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
+    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
     if (!limitCovers(motorLimit(rating, sf), shaft))
-      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the motor runs at ${fmtPctExact(x, [sf], 0)} load, above its rating × service factor ${fmtPct(sf, 0)}: the shaft power ${qtExact("power", shaft, [rating * sf])} exceeds ${qtLimit("power", motorLimit(rating, sf), [shaft])}, so the motor overloads at this step (its efficiency taken at full load)` });
+      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], 0)} load, above its rating × service factor ${fmtPct(sf, 0)}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
       energyKWh: (electricalPower * s.hours) / 1000, status: throttled ? "throttled-at-min-on-curve-speed" : "ok",
-      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : "full speed, throttled"),
+      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
     };
   });
   const complete = steps.every((s) => stepCounted(s) || s.hours === 0);

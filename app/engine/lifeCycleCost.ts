@@ -53,6 +53,9 @@ export interface LifeCycleResult {
   /** Cumulative present-value cost at the end of year 0…N (year 0: the purchase). */
   cumulative: number[];
   source: string;
+  /** The tariff escalation and discount rate it was computed with (fractions per year). Absent in selections frozen before 2026-12-03. */
+  escalation?: number;
+  discountRate?: number;
   /** Plausibility warnings (`implausible-escalation`), each with its rule and numbers. Absent in selections frozen before 2026-12-03. */
   warnings?: EngineWarning[];
 }
@@ -115,5 +118,5 @@ export function lifeCycleCost(input: LifeCycleInput): LifeCycleResult {
     yearly.push({ year: t, energyCost, presentValue });
     cumulative.push(purchase + pv);
   }
-  return { purchase, purchaseGiven, yearly, energyPresentValue: pv, total: purchase + pv, cumulative, source: LCC_SOURCE, warnings: escalationWarnings(e, years) };
+  return { purchase, purchaseGiven, yearly, energyPresentValue: pv, total: purchase + pv, cumulative, source: LCC_SOURCE, escalation: e, discountRate: d, warnings: escalationWarnings(e, years) };
 }

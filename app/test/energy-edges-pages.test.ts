@@ -92,4 +92,13 @@ describe("a downhill step under system-curve control, and an implausible escalat
     expect(figure("cycle_steps_not_computed")?.[2]).toBe("0");
     expect(figure("lcc_warning_1")?.[2]).toMatch(ESCALATION);
   });
+  test("the life-cycle cost names the rates it rests on (the input's +100 %/year escalation, the default 5 %/year discount) on the page, the report and in the CSV, and the CSV gives the cycle's assumptions", () => {
+    const RATES = "Life-cycle cost: over 50 years at a tariff escalation of +100 %/year and a discount rate of 5 %/year; present-value method";
+    expect(page.system).toContain(RATES);
+    expect(page.report).toContain(RATES);
+    expect(figure("lcc_tariff_escalation")?.slice(2, 4)).toEqual(["1", "1/year"]);
+    expect(figure("lcc_discount_rate")?.slice(2, 4)).toEqual(["0.05", "1/year"]);
+    expect(figure("cycle_assumption_1")?.[2]).toMatch(/^Affinity laws for speed \(Q ∝ N, H ∝ N², P ∝ N³/);
+    expect(figure("cycle_assumption_2")?.[2]).toMatch(/^Motor and drive losses at part load: /);
+  });
 });

@@ -4,6 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { lifeCycleCost } from "~/engine";
 import { fixtureEnergy as energyOf } from "./energy-fixture";
+import { lccRatesText } from "./energy";
 import { defaultSystemInput } from "./hydraulics";
 import { motorFigures } from "./candidate-judgement";
 
@@ -46,5 +47,15 @@ describe("energy cost with hours or tariff not given", () => {
     expect(zero.annualEnergyKWh).toBeGreaterThan(0);
     expect(zero.annualCost).toBeNull();
     expect(motorFigures({ ...base, tariffPerKWh: 0.2 }).annualCost).toBeCloseTo(motorFigures({ ...base, tariffPerKWh: 0.2 }).annualEnergyKWh! * 0.2, 9);
+  });
+});
+
+describe("the life-cycle cost's period and rates in words", () => {
+  it("as computed: the rates as typed with their sign; 1 year, a falling tariff and 0 % discount; frozen before the rates were kept: the period alone", () => {
+    const lcc = (years: number, escalation: number, discountRate: number) => lifeCycleCost({ purchasePrice: 100.05, annualEnergyKWh: 1000, tariffPerKWh: 0.1, years, escalation, discountRate });
+    expect(lccRatesText(lcc(15, 0.03, 0.05))).toBe("over 15 years at a tariff escalation of +3 %/year and a discount rate of 5 %/year");
+    expect(lccRatesText(lcc(1, -0.025, 0))).toBe("over 1 year at a tariff escalation of −2.5 %/year and a discount rate of 0 %/year");
+    const { escalation: _e, discountRate: _d, ...frozenBefore } = lcc(50, 0.03, 0.03);
+    expect(lccRatesText(frozenBefore)).toBe("over 50 years");
   });
 });

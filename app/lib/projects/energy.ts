@@ -24,6 +24,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
+import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -71,12 +72,18 @@ export const EnergySettingsSchema = v.pipe(
 
 /** Hours in a year at most: a leap year, 366 days × 24 h. */
 export const HOURS_PER_YEAR_MAX = 366 * 24;
+/**
+ * A running total of hours is past the year only beyond 1e-9 of it (about 32 ms), the engine's own tolerance (dutyCycle.ts):
+ * steps typed in hundredths that add up to 8784 h exactly sum in binary to 8784.000000000002 h.
+ */
+const pastYear = (t: number) => t > HOURS_PER_YEAR_MAX * (1 + 1e-9);
 /** The first step where the running total of hours passes a year (HOURS_PER_YEAR_MAX), or −1. */
 export function stepPastYear(profile: readonly { hours: number }[]): number {
   let t = 0;
-  return profile.findIndex((x) => (t += x.hours) > HOURS_PER_YEAR_MAX);
+  return profile.findIndex((x) => pastYear((t += x.hours)));
 }
-const hoursText = (h: number) => `${Number(h.toFixed(2))} h`;
+/** Hours to 2 decimals; a total past the year with the decimals that set it apart from 8784 h (never "8784 h, more than … 8784 h"). */
+const hoursText = (h: number) => `${pastYear(h) && Number(h.toFixed(2)) <= HOURS_PER_YEAR_MAX ? fmtNumExact(h, [HOURS_PER_YEAR_MAX]) : Number(h.toFixed(2))} h`;
 /** Why the steps do not fit in a year, with the rule and the numbers (k: the step where the running total passes it). */
 export function stepsOverYear(profile: readonly { hours: number }[], k: number): string {
   const total = profile.reduce((t, x) => t + x.hours, 0);
@@ -92,6 +99,8 @@ type InputLike = {
   /** The system's mode and pressure difference (Pa): what a step needing no pump head names as its cause (duty-check.ts). */
   mode: SystemInput["mode"];
   pressureDifference: number;
+  /** The liquid (its name in the viscosity note of a cycle under a drive). */
+  fluid?: SystemInput["fluid"];
   hoursPerYear: number;
   tariffPerKWh: number;
   duty: { flow: number; head: number } | null;
@@ -134,6 +143,9 @@ type EvaluatedLike = {
     curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
     operating: { flow: number; head: number } | null;
     figures: { motor: { rating: number | null; efficiency: number | null } } | null;
+    /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
+    viscosityB?: number | null;
+    viscosity?: { status: string } | null;
   } | null;
 };
 
@@ -190,15 +202,22 @@ export function candidateEnergy(
         powerDensity: density,
         riseTolerance: 1,
       });
-      // A VFD may run up to the pump's full speed: undo a speed setting of the candidate (affinity laws).
+      // A VFD may run up to the pump's full speed, or up to the candidate's set speed where it is set above its curve's
+      // (a typed ratio up to 1.2, the speed its own figures meet the duty at): undo a speed setting of the candidate
+      // (affinity laws), so speeds are fractions of the curve's speed.
+      const overspeed = mode.vfd && c.adjustment.method === "speed" && r.ratio > 1 ? r.ratio : undefined;
       if (mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1) curve = scaleBySpeed(curve, 1 / r.ratio).curve;
+      if (overspeed) out.assumptions.push(`The drive runs the pump up to the candidate's set speed, ${fmtPct(overspeed)} of its curve's (the speeds of the duty cycle are fractions of the curve's speed).`);
       const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
       const prepared = prepareSystem(systemSpec);
       const sysHead = systemHeadFunction(prepared);
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor }, driveEfficiency: drive, noHeadReason });
+      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined });
+      const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
+      if (visc) out.assumptions.push(visc);
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
       // candidate's figures read 0 h (candidate-judgement.ts): a purchase price alone is no life-cycle cost.
       const missing = [
@@ -217,6 +236,27 @@ export function candidateEnergy(
     }
   }
   return out;
+}
+
+/**
+ * On a viscous liquid under a drive: the curve corrected (ANSI/HI 9.6.7) at the candidate's speed is taken to each step's
+ * speed by the affinity laws, B not worked out again; B ∝ N^−0.5 along the affinity parabola (B ∝ H^0.0625 / (Q^0.375 ·
+ * N^0.25), H ∝ N², Q ∝ N), so the slowest counted step's B is said with its numbers. Null on water, where no step runs
+ * below the candidate's speed, or where the curve was not judged by B (no BEP, outside the method: their own warnings).
+ */
+function viscousNote(input: InputLike, r: NonNullable<EvaluatedLike["result"]>, method: EvaluatedLike["adjustment"]["method"], cycle: DutyCycleResult): string | null {
+  const b = r.viscosityB;
+  const status = r.viscosity?.status;
+  if (b == null || !(b > 0) || (status !== "corrected" && status !== "no-correction") || cycle.mode === "fixed-speed") return null;
+  const ref = method === "speed" && r.ratio > 0 ? r.ratio : 1; // the speed B was worked out at, a fraction of the curve's
+  const speeds = cycle.steps.filter((s) => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status) && s.speedRatio != null && s.speedRatio > 0).map((s) => s.speedRatio!);
+  const slowest = speeds.length > 0 ? Math.min(...speeds) : null;
+  if (slowest === null || !(slowest < ref)) return null;
+  const bStep = b * (ref / slowest) ** 0.5;
+  if (status === "no-correction" && !(bStep > 1)) return null;
+  const liquid = input.fluid?.kind === "custom" ? input.fluid.name || "the custom liquid" : "the liquid";
+  const curveWords = status === "corrected" ? "the curve as corrected for viscosity (ANSI/HI 9.6.7)" : "the water curve, which needs no viscosity correction (ANSI/HI 9.6.7, B ≤ 1)";
+  return `On ${liquid}, ${curveWords} at the candidate's speed, B = ${b.toFixed(2)}, is taken to each step's speed by the affinity laws; B is not worked out again at each speed: it grows as the speed falls (B ∝ N^−0.5 along the affinity parabola), to ${bStep.toFixed(2)} at the slowest step's ${(slowest * 100).toFixed(1)} % speed, where the correction, and the energy, may be larger than shown.`;
 }
 
 /** A duty cycle as computed or frozen: its steps and the engine's warnings (frozen before warnings named their step: no `parameter`). */
@@ -265,6 +305,20 @@ export function noStepCounted(cycle: { totalHours: number; steps: readonly { sta
 /** The life-cycle cost to show: none where no step was counted (`noStepCounted`; selections frozen before kept one). */
 export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnergy["cycle"] } | null | undefined): LifeCycleResult | null =>
   e?.lcc && !noStepCounted(e.cycle) ? e.lcc : null;
+
+/**
+ * The life-cycle cost's period and the rates it rests on, as typed: "over 15 years at a tariff escalation of +3 %/year and
+ * a discount rate of 5 %/year"; the period alone for a cost frozen before the rates were kept with it.
+ */
+/** A life-cycle cost's period: "1 year", "15 years". */
+export const lccYears = (lcc: Pick<LifeCycleResult, "yearly">): string => `${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
+
+export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" | "discountRate">): string {
+  const years = `over ${lccYears(lcc)}`;
+  if (lcc.escalation == null || lcc.discountRate == null) return years;
+  const e = lcc.escalation;
+  return `${years} at a tariff escalation of ${e < 0 ? "−" : "+"}${fmtPctLimit(Math.abs(e))}/year and a discount rate of ${fmtPctLimit(lcc.discountRate)}/year`;
+}
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {

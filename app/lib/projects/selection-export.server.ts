@@ -198,6 +198,7 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   add("cycle_profile", e.profileLabel, "");
   add("cycle_profile_source", e.profileSource, "");
   add("cycle_error", e.cycleError, "");
+  e.assumptions.forEach((a, i) => add(`cycle_assumption_${i + 1}`, a, "")); // what the step figures rest on (affinity laws, part-load factors, drive)
   const c = e.cycle;
   if (c) {
     const { notMet, notComputed } = missingSteps(c);
@@ -218,6 +219,9 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   add("lcc_total_present_value", none ? `not computed: ${none}` : (lcc?.total ?? null), currency);
   add("lcc_energy_present_value", lcc?.energyPresentValue ?? null, currency);
   add("lcc_years", lcc ? lcc.yearly.length : null, "years");
+  // The rates the life-cycle cost rests on (fractions per year; blank where frozen before they were kept with it).
+  add("lcc_tariff_escalation", lcc?.escalation ?? null, "1/year");
+  add("lcc_discount_rate", lcc?.discountRate ?? null, "1/year");
   add("lcc_source", lcc?.source ?? null, "");
   (lcc?.warnings ?? []).forEach((w, i) => add(`lcc_warning_${i + 1}`, w.message, ""));
 }

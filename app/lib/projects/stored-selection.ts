@@ -111,7 +111,7 @@ const Energy = obj({
   cycleError: v.nullable(str),
   annualCost: numOrNull,
   purchasePrice: numOrNull,
-  lcc: v.nullable(obj({ purchase: num, purchaseGiven: v.boolean(), yearly: v.array(obj({ year: num, energyCost: num, presentValue: num })), energyPresentValue: num, total: num, cumulative: v.array(num), source: str, warnings: v.optional(v.array(obj({ message: str, parameter: v.nullish(str), code: v.nullish(str) }))) })),
+  lcc: v.nullable(obj({ purchase: num, purchaseGiven: v.boolean(), yearly: v.array(obj({ year: num, energyCost: num, presentValue: num })), energyPresentValue: num, total: num, cumulative: v.array(num), source: str, escalation: v.optional(num), discountRate: v.optional(num), warnings: v.optional(v.array(obj({ message: str, parameter: v.nullish(str), code: v.nullish(str) }))) })),
   costMissing: v.nullish(str),
   assumptions: strings,
 });

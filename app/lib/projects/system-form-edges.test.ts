@@ -63,4 +63,14 @@ describe("duty-cycle steps past a year", () => {
     expect(r.errors).toEqual({ "energy.step.2.hours": "The steps add up to 9000 h a year, more than a year has: at most 8784 h, a leap year's 366 days × 24 h. With this step they reach 9000 h; take hours off the steps." });
     expect(read({ ...steps, "energy.step.2.hours": "3784" }).errors).toEqual({}); // 8784 h exactly: a leap year, taken
   });
+  it("steps typed in hundredths that add up to 8784 h exactly are taken (their binary sum is 8784.000000000002); 0.001 h more is refused, said apart from 8784 h", () => {
+    // 2452.01 + 2587.38 + 1516.76 + 966.51 + 528.06 + 733.28 = 8784.00 h (decimal arithmetic); a year of 8784 h (calendar).
+    const hours = ["2452.01", "2587.38", "1516.76", "966.51", "528.06", "733.28"];
+    const six = (last: string) => Object.fromEntries(hours.flatMap((h, i) => [[`energy.step.${i}.pct`, String(100 - 10 * i)], [`energy.step.${i}.hours`, i === 5 ? last : h]]));
+    const exact = read({ ...six("733.28"), "energy.control": "fixed-speed", "energy.profileKind": "user" });
+    expect(exact.errors).toEqual({});
+    expect(exact.input?.energy?.profile?.map((s) => s.hours)).toEqual(hours.map(Number));
+    const over = read({ ...six("733.281"), "energy.control": "fixed-speed", "energy.profileKind": "user" });
+    expect(over.errors).toEqual({ "energy.step.5.hours": "The steps add up to 8784.001 h a year, more than a year has: at most 8784 h, a leap year's 366 days × 24 h. With this step they reach 8784.001 h; take hours off the steps." });
+  });
 });
