@@ -184,7 +184,7 @@ export function fmtPctLimit(x: number): string {
  * One side of a tolerance, with its sign: "−2.5 %", "+10 %", and "0 %" for none (never "−0 %", which reads as a
  * signed zero beside the limit it gives).
  * @param x the allowance on that side, a fraction ≥ 0 (dimensionless)
- * @param side "−" below, "+" above
+ * @param side "−" below, "+" above (unitless)
  */
 export function fmtPctSide(x: number, side: "−" | "+"): string {
   return x === 0 ? "0 %" : `${side}${fmtPctLimit(x)}`;
