@@ -6,7 +6,8 @@ import { pumpsBasis } from "~/lib/projects/power-basis";
 import { publishedOf, settingToken } from "~/lib/projects/setting-step";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { fmtFlow, fmtHead, fmtPctExact, fmtQ, renderUnits, type UnitChoice } from "~/lib/shared/units";
-import { DEFAULT_SPEED_RANGE, verdictLabel, type Verdict } from "~/engine";
+import { DEFAULT_SPEED_RANGE, LAMINAR_MAX_RE, TURBULENT_MIN_RE, verdictLabel, type Verdict } from "~/engine";
+import { fmtExpExact } from "~/engine/quantityText";
 import { ListTable } from "./ListTable";
 import { verdictNpshNote, verdictNpshShort } from "~/lib/projects/verdict-npsh";
 import { STAGED_START_RULE, verdictStartNote, verdictStartShort } from "~/lib/projects/verdict-start";
@@ -132,7 +133,7 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
               ))}
             </td>
             <td>{fmtQ(unitSystem, "velocity", r.velocity)}</td>
-            <td>{r.reynolds.toExponential(2)}</td>
+            <td>{fmtExpExact(r.reynolds, [LAMINAR_MAX_RE, TURBULENT_MIN_RE])}</td>
             <td>{r.frictionFactor.toFixed(4)}</td>
             <td>{r.regime}</td>
             <td>{fmtHead(unitSystem, r.headLoss)}</td>

@@ -126,6 +126,21 @@ export function fmtNumExact(x: number | null | undefined, against: readonly (num
 }
 
 /**
+ * A number in exponent form ("4.00e+3") beside the numbers it is judged against, with more digits (up to 12) while it
+ * would read as one of them though it is not: a Reynolds number of 3999.6 is "3.9996e+3" beside the turbulent 4000,
+ * not "4.00e+3"; "—" when missing.
+ * @param x the number (any unit)
+ * @param against the numbers it is compared with, as printed beside it (same unit)
+ * @param digits digits after the point at the least (count)
+ */
+export function fmtExpExact(x: number | null | undefined, against: readonly number[] = [], digits = 2): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  let d = digits;
+  while (d < 12 && against.some((a) => a !== x && Number(x.toExponential(d)) === Number(a.toExponential(d)))) d++;
+  return x.toExponential(d);
+}
+
+/**
  * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %"; "—" when missing.
  * @param x the fraction (dimensionless)
  * @param digits decimals (count)

@@ -56,7 +56,8 @@ export function transitionMethodNote(corr: DarcyCorrelation, reynolds: number, r
  * @param f friction factor it gave (dimensionless)
  */
 export function transitionMessage(corr: DarcyCorrelation, reynolds: number, relativeRoughness: number, f: number): string {
-  return `Re = ${Math.round(reynolds)} is in the laminar–turbulent transition (2000–4000); friction is uncertain there. ${transitionMethodNote(corr, reynolds, relativeRoughness, f)}`;
+  // Re never reads as an end of the band it is inside ("4000" for 3999.6: turbulent from 4000).
+  return `Re = ${fmtNumExact(reynolds, [LAMINAR_MAX_RE, TURBULENT_MIN_RE], 0)} is in the laminar–turbulent transition (${LAMINAR_MAX_RE}–${TURBULENT_MIN_RE}); friction is uncertain there. ${transitionMethodNote(corr, reynolds, relativeRoughness, f)}`;
 }
 
 /**
