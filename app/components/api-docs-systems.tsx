@@ -4,7 +4,7 @@ import { SEARCH_FILL_JUDGED } from "~/lib/projects/search-fill";
 import { SEARCH_DEFAULT_PUMPS, SEARCH_MAX_PUMPS, SEARCH_MIN_PUMPS } from "~/lib/projects/search-arrangement";
 
 const VERDICTS: [string, string][] = [
-  ["meets", "The operating flow is within the duty's tolerance (by default −0 % / +10 % of the duty flow; settable per system)."],
+  ["meets", "The operating flow is within the duty's tolerance (by default 0 % below / +10 % above the duty flow; settable per system)."],
   ["short", "The pump delivers less than the duty flow on this system."],
   ["oversized", "The pump delivers more than the tolerance above the duty flow; the reasons say what throttling, trim or speed would save."],
   ["outside-catalogue", "The trim or speed needed lies outside what the model publishes (smallest to largest impeller; speed 30–100 % of rated unless the model says otherwise)."],

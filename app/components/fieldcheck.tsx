@@ -4,7 +4,7 @@ import { DutyChart } from "./chart/DutyChart";
 import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
-import { fmtPctLimit } from "~/engine/quantityText";
+import { fmtPctLimit, fmtPctSide } from "~/engine/quantityText";
 import { VERDICT_TEXT, type CheckResult, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
@@ -40,10 +40,10 @@ export function GradeTable({ highlight }: { highlight?: string }) {
             <tr key={g.id} className={`border-t border-slate-100 ${g.id === highlight ? "font-semibold" : ""}`}>
               <td className="py-1">{g.id}</td>
               <td>
-                −{fmtPctLimit(g.flow[0])} / +{fmtPctLimit(g.flow[1])}
+                {fmtPctSide(g.flow[0], "−")} / {fmtPctSide(g.flow[1], "+")}
               </td>
               <td>
-                −{fmtPctLimit(g.head[0])} / +{fmtPctLimit(g.head[1])}
+                {fmtPctSide(g.head[0], "−")} / {fmtPctSide(g.head[1], "+")}
               </td>
               <td>{g.powerAbove !== undefined ? `≤ +${fmtPctLimit(g.powerAbove)}` : "—"}</td>
               <td>{g.efficiencyBelow !== undefined ? (g.efficiencyBelow === 0 ? "≥ the curve's" : `≥ −${fmtPctLimit(g.efficiencyBelow)}`) : "—"}</td>

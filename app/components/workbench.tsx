@@ -5,8 +5,9 @@ import type { PumpSeries } from "./chart/types";
 import { pumpsBasis } from "~/lib/projects/power-basis";
 import { publishedOf, settingToken } from "~/lib/projects/setting-step";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtNum, fmtQ, renderUnits, type UnitChoice } from "~/lib/shared/units";
-import { verdictLabel, type Verdict } from "~/engine";
+import { fmtFlow, fmtHead, fmtPctExact, fmtQ, renderUnits, type UnitChoice } from "~/lib/shared/units";
+import { DEFAULT_SPEED_RANGE, LAMINAR_MAX_RE, TURBULENT_MIN_RE, verdictLabel, type Verdict } from "~/engine";
+import { fmtExpExact } from "~/engine/quantityText";
 import { ListTable } from "./ListTable";
 import { verdictNpshNote, verdictNpshShort } from "~/lib/projects/verdict-npsh";
 import { STAGED_START_RULE, verdictStartNote, verdictStartShort } from "~/lib/projects/verdict-start";
@@ -82,7 +83,10 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
     // The value solved before rounding: in the candidates table's "Adjustment" (and the report's), not in every chart label.
     const solved = solvedToo && r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${shown(r.solvedRatio)}, rounded up to keep the duty` : null;
     const more = (xs: (string | null)[]) => (xs.some(Boolean) ? ` (${xs.filter(Boolean).join("; ")})` : "");
-    if (a.method === "speed") parts.push(pub.speed != null ? `at ${fmtNum(ratio * 100, 1)} % speed${more([set, solved])}` : `at ${set} speed${more([solved])}`);
+    // A speed past the allowed range never reads as its end beside the outside-catalogue verdict ("100.04 %", not "100.0 %").
+    const { min, max } = DEFAULT_SPEED_RANGE;
+    const pct = fmtPctExact(ratio, ratio > max ? [max] : ratio < min ? [min] : [], 1);
+    if (a.method === "speed") parts.push(pub.speed != null ? `at ${pct} speed${more([set, solved])}` : `at ${set} speed${more([solved])}`);
     else parts.push(`trimmed to ${set}${more([solved])}`);
   }
   if (a.arrangement !== "single") parts.push(`${a.dutyPumps} in ${a.arrangement}${a.standbyPumps ? ` + ${a.standbyPumps} standby` : ""}`);
@@ -129,7 +133,7 @@ export function RunTable({ view, unitSystem }: { view: WorkbenchView; unitSystem
               ))}
             </td>
             <td>{fmtQ(unitSystem, "velocity", r.velocity)}</td>
-            <td>{r.reynolds.toExponential(2)}</td>
+            <td>{fmtExpExact(r.reynolds, [LAMINAR_MAX_RE, TURBULENT_MIN_RE])}</td>
             <td>{r.frictionFactor.toFixed(4)}</td>
             <td>{r.regime}</td>
             <td>{fmtHead(unitSystem, r.headLoss)}</td>

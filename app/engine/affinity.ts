@@ -14,7 +14,7 @@ import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, 
 import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
-import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtPair } from "./quantityText.ts";
 
 /** Impeller trim law. */
 export type TrimLaw = "linear" | "square";
@@ -291,7 +291,7 @@ export const AFFINITY_SPEED_RANGE = [0.5, 1.2] as const;
 
 function scaleWarningsSpeed(r: number): EngineWarning[] {
   return r < AFFINITY_SPEED_RANGE[0] || r > AFFINITY_SPEED_RANGE[1] ? [{ code: "large-speed-change", parameter: "ratio",
-    message: `speed ratio ${r.toFixed(3)}: affinity laws are less reliable far from the tested speed` }] : [];
+    message: `speed ratio ${fmtNumExact(r, AFFINITY_SPEED_RANGE, 3)}, outside ${AFFINITY_SPEED_RANGE[0]}–${AFFINITY_SPEED_RANGE[1]}: affinity laws are less reliable far from the tested speed` }] : []; // never "0.500" for 0.49996
 }
 
 /**

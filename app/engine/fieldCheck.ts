@@ -19,7 +19,7 @@ import { gradePower, type GradePowerCheck } from "./gradePower.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
 
 /** An acceptance grade: allowed deviations as fractions, [below, above]. */
 export interface ToleranceGrade {
@@ -35,6 +35,8 @@ export interface ToleranceGrade {
   source: string;
 }
 
+/** Half-width of the inferred flow band (fraction of the flow) past which the check says to fit a flow meter (common practice). */
+const WIDE_FLOW_BAND = 0.1;
 const ISO = "ISO 9906:2012 acceptance grades (from memory; verify against the standard)";
 
 /** Acceptance grades, tightest first. */
@@ -325,8 +327,9 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
     const pc = shaftPowerAt(c, q, rho);
     powerDeviation = pc !== null && pc > 0 ? pm / pc - 1 : null;
   }
-  if (low !== null && high !== null && q > 0 && (high - low) / q > 0.2) {
-    warnings.push({ code: "wide-flow-band", message: `flat curve: gauge accuracy gives a flow band of ±${(((high - low) / 2 / q) * 100).toFixed(0)} %; fit a flow meter for a verdict` });
+  if (low !== null && high !== null && q > 0 && (high - low) / q > 2 * WIDE_FLOW_BAND) {
+    // The half-width never reads as the limit it is past ("±10 %" for 10.00001 %), and the rule is said.
+    warnings.push({ code: "wide-flow-band", message: `flat curve: gauge accuracy gives a flow band of ±${fmtPctExact((high - low) / 2 / q, [WIDE_FLOW_BAND], 0)}, wider than ±${fmtPctLimit(WIDE_FLOW_BAND)}; fit a flow meter for a verdict` });
   }
   dutyDeviation = dutyDev(q, t.tdh);
   return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "inferred-from-curve",

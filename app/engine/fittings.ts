@@ -10,7 +10,7 @@
  */
 import { EngineInputError, requireInteger, requirePositive, type EngineWarning } from "./errors.ts";
 import { fullyRoughFrictionFactor } from "./friction.ts";
-import { qt } from "./quantityText.ts";
+import { qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** n by nominal size: the first band whose `upTo` (in, inclusive) is ≥ the size applies. */
 export interface SizeBand {
@@ -154,11 +154,14 @@ export function fittingKDetailed(fittingId: string, diameter: number, nominal?: 
   if (f.model.type === "fixed") return { k: f.model.k, warnings: [] };
   const warnings: EngineWarning[] = [];
   const size = sizeOf(diameter, nominal);
-  const what = size.fromNominal ? `nominal size ${fmtIn(size.inches)} in` : `bore ${qt("diameter", diameter)}`; // a nominal size is a name; a bore a length
+  // A nominal size is a name; a bore a length, read apart from the range's ends (a 610 mm bore read "610 mm is outside the 50.8 mm–610 mm").
+  const ends = f.sizeRange ? [f.sizeRange.min * INCH, f.sizeRange.max * INCH] : [];
+  const what = size.fromNominal ? `nominal size ${fmtIn(size.inches)} in` : `bore ${qtExact("diameter", diameter, ends)}`;
+  const end = (inches: number) => (size.fromNominal ? qt("diameter", inches * INCH) : qtLimit("diameter", inches * INCH, [diameter]));
   const slack = size.fromNominal ? 1 : 0.9;
   if (f.sizeRange && (size.inches < f.sizeRange.min * slack || size.inches > f.sizeRange.max)) {
     warnings.push({ code: "fitting-size-outside-range", parameter: "nominal",
-      message: `${f.name}: ${what} is outside the ${qt("diameter", f.sizeRange.min * 0.0254)}–${qt("diameter", f.sizeRange.max * 0.0254)} the reference covers; K extrapolated` });
+      message: `${f.name}: ${what} is outside the ${end(f.sizeRange.min)}–${end(f.sizeRange.max)} the reference covers; K extrapolated` });
   }
   const listed = nominal !== undefined && CRANE_FT[nominal] !== undefined;
   if (!listed && (size.inches < CRANE_FT_RANGE.min * slack || size.inches > CRANE_FT_RANGE.max)) {

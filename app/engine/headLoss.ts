@@ -6,6 +6,7 @@ import { EngineInputError, requireFiniteResult, requireNonNegative, requirePosit
 import { churchill, laminar } from "./friction.ts";
 import { CORRELATIONS, findCorrelation, rangeWarning, type DarcyCorrelation, type FrictionMethod, type HeadLossCorrelation } from "./registry.ts";
 import { G0 } from "./units.ts";
+import { fmtNumExact } from "./quantityText.ts";
 // Upper Reynolds number of laminar flow, and lower of fully turbulent (common practice); the transition's words.
 import { LAMINAR_MAX_RE, TURBULENT_MIN_RE, transitionMessage } from "./transitionText.ts";
 export { LAMINAR_MAX_RE, TURBULENT_MIN_RE };
@@ -196,7 +197,7 @@ export function pipeHeadLoss(input: PipeLossInput): PipeLossResult {
     }
     const regime = regimeOf(Re);
     if (regime !== "turbulent") warnings.push({ code: "not-turbulent", parameter: "reynolds",
-      message: `Hazen-Williams assumes turbulent flow; Re = ${Math.round(Re)}` });
+      message: `Hazen-Williams assumes turbulent flow (Re ≥ ${TURBULENT_MIN_RE}); Re = ${fmtNumExact(Re, [TURBULENT_MIN_RE], 0)}` }); // never "4000" for 3999.6
     const frictionLoss = hw.fn(flow, D, L, C);
     const f = L > 0 && vh > 0 ? frictionLoss / ((L / D) * vh) : 0;
     return requireFiniteResult("flow, diameter, length", { velocity: V, reynolds: Re, frictionFactor: f, headLoss: frictionLoss + minorLoss, frictionLoss,

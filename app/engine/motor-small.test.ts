@@ -66,7 +66,8 @@ describe("the flips at the table's edges (IEC 60034-30-1:2014 IE3 4-pole, from m
     const below = motorEfficiency(749.9, "IE3", 4);
     expect(below.efficiency).toBeCloseTo(0.808, 9);
     expect(below.warnings.map((w) => w.code)).toEqual(["motor-between-table"]);
-    expect(inSI(below.warnings[0].message)).toBe("motor 0.750 kW lies between the IEC 60034-30-1 table's 0.550 kW (80.8 %) and 0.750 kW (82.5 %): the lower entry's 80.8 % is used (conservative; the standard's interpolation for intermediate outputs is not applied)");
+    // The rating reads apart from the 0.750 kW entry it is below (it read "motor 0.750 kW lies between … and 0.750 kW").
+    expect(inSI(below.warnings[0].message)).toBe("motor 0.7499 kW lies between the IEC 60034-30-1 table's 0.550 kW (80.8 %) and 0.750 kW (82.5 %): the lower entry's 80.8 % is used (conservative; the standard's interpolation for intermediate outputs is not applied)");
     expect(motorEfficiency(750, "IE3", 4).efficiency).toBeCloseTo(0.825, 9);
   });
   it("0.55 kW: 549.9 W takes 0.40 kW's 78.0 %; 550 W takes 80.8 %", () => {

@@ -165,14 +165,18 @@ export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CL
   const warnings: EngineWarning[] = [];
   if (kw > 1000) throw new EngineInputError("rating", `is above ${qt("power", 1e6)}, the end of the IEC 60034-30-1 table`);
   const pct = (j: number) => `${row[j].toFixed(1)} %`;
-  const at = (j: number) => `${qt("power", IE_TABLE_KW[j] * 1000)} (${pct(j)})`;
+  // The rating and the table's entries beside it read apart in any unit ("7.38 hp lies between 7.38 hp and 10.1 hp" was
+  // a typed 7.38 hp, 5503 W, beside the 5.5 kW entry).
+  const w = kw * 1000;
+  const entry = (j: number) => qtLimit("power", IE_TABLE_KW[j] * 1000, [w]);
+  const at = (j: number) => `${entry(j)} (${pct(j)})`;
   // Outside the standard's range (below 0.12 kW): its smallest entry, which overstates a smaller motor's efficiency.
-  if (kw < IE_TABLE_KW[0] * (1 - 1e-9)) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} is below the IEC 60034-30-1 table, which starts at ${qt("power", IE_TABLE_KW[0] * 1000)}: its ${pct(0)} is used (a smaller motor's efficiency is lower: energy understated)` });
+  if (kw < IE_TABLE_KW[0] * (1 - 1e-9)) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qtExact("power", w, [IE_TABLE_KW[0] * 1000])} is below the IEC 60034-30-1 table, which starts at ${entry(0)}: its ${pct(0)} is used (a smaller motor's efficiency is lower: energy understated)` });
   // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
   let i = 0;
   while (i + 1 < IE_TABLE_KW.length && IE_TABLE_KW[i + 1] <= kw * (1 + 1e-9)) i++;
   const between = kw > IE_TABLE_KW[i] * (1 + 1e-9) && i + 1 < IE_TABLE_KW.length;
-  if (between) warnings.push({ code: "motor-between-table", parameter: "rating", message: `motor ${qt("power", kw * 1000)} lies between the IEC 60034-30-1 table's ${at(i)} and ${at(i + 1)}: the lower entry's ${pct(i)} is used (conservative; the standard's interpolation for intermediate outputs is not applied)` });
+  if (between) warnings.push({ code: "motor-between-table", parameter: "rating", message: `motor ${qtExact("power", w, [IE_TABLE_KW[i] * 1000, IE_TABLE_KW[i + 1] * 1000])} lies between the IEC 60034-30-1 table's ${at(i)} and ${at(i + 1)}: the lower entry's ${pct(i)} is used (conservative; the standard's interpolation for intermediate outputs is not applied)` });
   return { efficiency: row[i] / 100, warnings };
 }
 

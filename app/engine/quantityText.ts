@@ -126,6 +126,21 @@ export function fmtNumExact(x: number | null | undefined, against: readonly (num
 }
 
 /**
+ * A number in exponent form ("4.00e+3") beside the numbers it is judged against, with more digits (up to 12) while it
+ * would read as one of them though it is not: a Reynolds number of 3999.6 is "3.9996e+3" beside the turbulent 4000,
+ * not "4.00e+3"; "—" when missing.
+ * @param x the number (any unit)
+ * @param against the numbers it is compared with, as printed beside it (same unit)
+ * @param digits digits after the point at the least (count)
+ */
+export function fmtExpExact(x: number | null | undefined, against: readonly number[] = [], digits = 2): string {
+  if (x == null || !Number.isFinite(x)) return "—";
+  let d = digits;
+  while (d < 12 && against.some((a) => a !== x && Number(x.toExponential(d)) === Number(a.toExponential(d)))) d++;
+  return x.toExponential(d);
+}
+
+/**
  * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %"; "—" when missing.
  * @param x the fraction (dimensionless)
  * @param digits decimals (count)
@@ -165,13 +180,29 @@ export function fmtPctSignedExact(x: number | null | undefined, against: readonl
   return `${x < 0 ? "−" : plus ? "+" : ""}${fmtPctExact(Math.abs(x), against.map(Math.abs))}`;
 }
 
+/** Decimals of a percentage a limit is shown to at most (count): 0.000001 %, more than a form keeps (the system editor's 4). */
+const LIMIT_PCT_DECIMALS = 6;
+
 /**
- * A threshold as a percentage with the decimals it needs (at most 3, no trailing zeros): a tolerance or a
- * range end as typed, e.g. 0.025 → "2.5 %", 0.011 → "1.1 %", 0.1 → "10 %".
+ * A threshold as a percentage with the decimals it needs (at most 6, no trailing zeros): a tolerance or a
+ * range end as typed, e.g. 0.025 → "2.5 %", 0.011 → "1.1 %", 0.1 → "10 %", 0.0000125 → "0.00125 %" (a limit
+ * that is not zero never reads "0 %"; below 0.000001 % it gets 3 significant digits).
  * @param x the fraction (dimensionless)
  */
 export function fmtPctLimit(x: number): string {
-  return Number.isFinite(x) ? `${Number((x * 100).toFixed(3))} %` : "—";
+  if (!Number.isFinite(x)) return "—";
+  const shown = Number((x * 100).toFixed(LIMIT_PCT_DECIMALS));
+  return `${shown === 0 && x !== 0 ? (x * 100).toPrecision(TINY_SIGNIFICANT) : shown} %`; // Number(): "-0" reads "0"
+}
+
+/**
+ * One side of a tolerance, with its sign: "−2.5 %", "+10 %", and "0 %" for none (never "−0 %", which reads as a
+ * signed zero beside the limit it gives).
+ * @param x the allowance on that side, a fraction ≥ 0 (dimensionless)
+ * @param side "−" below, "+" above (unitless)
+ */
+export function fmtPctSide(x: number, side: "−" | "+"): string {
+  return x === 0 ? "0 %" : `${side}${fmtPctLimit(x)}`;
 }
 
 /**

@@ -7,6 +7,7 @@
 import { churchill, colebrook, haaland, hazenWilliamsHeadLoss, laminar, swameeJain } from "./friction.ts";
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 import type { EngineWarning } from "./errors.ts";
+import { fmtExpExact } from "./quantityText.ts";
 
 /** Ids of Darcy friction-factor methods. */
 export type FrictionMethod = "colebrook" | "swamee-jain" | "haaland" | "churchill";
@@ -165,6 +166,12 @@ function fmt(x: number): string {
   return Number.isInteger(x) || Math.abs(x) >= 1e4 || Math.abs(x) < 1e-3 ? x.toExponential(2) : String(x);
 }
 
+/** As {@link fmt}, a value outside a range never reading as its end ("Re = 1.00000001e+8 is outside … 1.00e+8", not "1.00e+8"). */
+function fmtApart(x: number, range: Range): string {
+  const shown = fmt(x);
+  return shown.includes("e") && range.some((end) => end !== x && Number(shown) === Number(fmt(end))) ? fmtExpExact(x, range.map((end) => Number(fmt(end)))) : shown;
+}
+
 /**
  * Warnings for a value outside a correlation's stated range.
  * @param correlation the correlation (unitless descriptor)
@@ -182,6 +189,6 @@ export function rangeWarning(
   return {
     code: "outside-validity",
     parameter,
-    message: `${correlation.name}: ${parameter} = ${fmt(value)} is outside its stated range ${fmt(range[0])}–${fmt(range[1])}; result given, use with care`,
+    message: `${correlation.name}: ${parameter} = ${fmtApart(value, range)} is outside its stated range ${fmt(range[0])}–${fmt(range[1])}; result given, use with care`,
   };
 }

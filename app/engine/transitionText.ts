@@ -6,7 +6,7 @@
 import type { EngineWarning } from "./errors.ts";
 import { churchill, colebrook, laminar } from "./friction.ts";
 import type { DarcyCorrelation } from "./registry.ts";
-import { fmtPctExact, fmtPctLimit, qt } from "./quantityText.ts";
+import { fmtNumExact, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Upper Reynolds number of laminar flow, and lower of fully turbulent (common practice). */
 export const LAMINAR_MAX_RE = 2000;
@@ -56,7 +56,8 @@ export function transitionMethodNote(corr: DarcyCorrelation, reynolds: number, r
  * @param f friction factor it gave (dimensionless)
  */
 export function transitionMessage(corr: DarcyCorrelation, reynolds: number, relativeRoughness: number, f: number): string {
-  return `Re = ${Math.round(reynolds)} is in the laminar–turbulent transition (2000–4000); friction is uncertain there. ${transitionMethodNote(corr, reynolds, relativeRoughness, f)}`;
+  // Re never reads as an end of the band it is inside ("4000" for 3999.6: turbulent from 4000).
+  return `Re = ${fmtNumExact(reynolds, [LAMINAR_MAX_RE, TURBULENT_MIN_RE], 0)} is in the laminar–turbulent transition (${LAMINAR_MAX_RE}–${TURBULENT_MIN_RE}); friction is uncertain there. ${transitionMethodNote(corr, reynolds, relativeRoughness, f)}`;
 }
 
 /**
@@ -100,12 +101,14 @@ export function transitionBandWarning(
   const failed = !(Number.isFinite(f0) && f0 > 0);
   const f = failed ? churchill(re, eD) : f0;
   const method = `At Re = ${reText(re)}${dutyIn ? " (the duty)" : ""}: ${transitionMethodNote(corr, re, eD, f)}${failed ? ` (${corr.name} failed there; Churchill's value)` : ""}.`;
-  const band = `flows from ${qt("flow", low)} to ${qt("flow", high)} (Re ${LAMINAR_MAX_RE}–${TURBULENT_MIN_RE}, Q = Re·ν·π·D/4 with D = ${qt("diameter", run.diameter)}) are in the laminar–turbulent transition; friction is uncertain there`;
+  // The duty flow and its Re read apart from the band's ends they are judged against (1.13 m³/h "above" a band "to 1.13 m³/h", Re = 4000 above 4000).
+  const dutyShown = duty != null && duty > 0 ? [duty] : [];
+  const band = `flows from ${qtLimit("flow", low, dutyShown)} to ${qtLimit("flow", high, dutyShown)} (Re ${LAMINAR_MAX_RE}–${TURBULENT_MIN_RE}, Q = Re·ν·π·D/4 with D = ${qt("diameter", run.diameter)}) are in the laminar–turbulent transition; friction is uncertain there`;
   let where = "";
   if (duty != null && duty > 0) {
-    const d = `the duty flow ${qt("flow", duty)} (Re = ${reText(reAt(duty))})`;
+    const d = `the duty flow ${qtExact("flow", duty, [low, high])} (Re = ${fmtNumExact(reAt(duty), [LAMINAR_MAX_RE, TURBULENT_MIN_RE], 0)})`;
     where = dutyIn ? `; ${d} is in it`
-      : duty >= high ? `; ${d} is above it, turbulent: only the curve below ${qt("flow", high)} (${fmtPctExact(high / duty, [TRANSITION_DUTY_FRACTION])} of the duty flow; warned from ${fmtPctLimit(TRANSITION_DUTY_FRACTION)} of it) is affected`
+      : duty >= high ? `; ${d} is above it, turbulent: only the curve below ${qtLimit("flow", high, dutyShown)} (${fmtPctExact(high / duty, [TRANSITION_DUTY_FRACTION, 1])} of the duty flow; warned from ${fmtPctLimit(TRANSITION_DUTY_FRACTION)} of it) is affected`
       : `; ${d} is below it, laminar (64/Re)`;
   }
   return { code: "transition-flow", parameter: "reynolds", message: `${band}${where}. ${method}` };

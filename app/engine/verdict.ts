@@ -30,7 +30,7 @@
  * Pure: numbers in, words out.
  */
 import { EngineInputError, requireNonNegative, requirePositive } from "./errors.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, fmtPctSide, qt, qtExact, qtLimit } from "./quantityText.ts";
 import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION } from "./affinity.ts";
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION, viscosityFactors } from "./viscous.ts";
 
@@ -290,7 +290,7 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   const lo = qd * (1 - tol.minus), hi = qd * (1 + tol.plus);
   const band = input.edges.length > 1 ? ` (${qt("flow", best.flow as number)} at ${best.name})` : "";
   const ratio = q / qd;
-  const tolText = `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
+  const tolText = `${fmtPctSide(tol.minus, "−")}/${fmtPctSide(tol.plus, "+")}`; // none below reads "0 %", not "−0 %"
   const ratioText = fmtPctExact(ratio, [1 - tol.minus, 1 + tol.plus]);
   // Beside a short or oversized verdict the flow never reads as the duty or a tolerance limit, nor they as it, in any unit.
   const flowText = qtExact("flow", q, [lo, hi, qd]);

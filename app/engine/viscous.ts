@@ -24,6 +24,7 @@
 import { EngineInputError, requireFiniteResult, requirePositive, type EngineWarning } from "./errors.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { fromSI, G0 } from "./units.ts";
+import { fmtNumExact } from "./quantityText.ts";
 
 /** Where the equations come from, for messages and docs. */
 export const HI_VISCOSITY_SOURCE = "ANSI/HI 9.6.7 (Hydraulic Institute, effects of liquid viscosity on rotodynamic pump performance), from memory: verify against the standard";
@@ -44,7 +45,8 @@ export interface ViscosityParameter {
   warnings: EngineWarning[];
 }
 
-const outsideMessage = (b: number) => `B = ${b.toFixed(1)} is above ${VISCOSITY_B_MAX}, the upper end of the ANSI/HI 9.6.7 method's range: outside the method, the water curve cannot be corrected by it`;
+// B never reads as the end it is above ("B = 40.0 is above 40" was B = 40.01).
+const outsideMessage = (b: number) => `B = ${fmtNumExact(b, [VISCOSITY_B_MAX], 1)} is above ${VISCOSITY_B_MAX}, the upper end of the ANSI/HI 9.6.7 method's range: outside the method, the water curve cannot be corrected by it`;
 
 /**
  * The Hydraulic Institute's parameter B (ANSI/HI 9.6.7, from memory): how far the pumped liquid's

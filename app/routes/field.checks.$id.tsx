@@ -12,7 +12,7 @@ import { crossOf, crossSentences, gradeRule, inputPowerW, powerGradeSentences, s
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -84,7 +84,7 @@ export default function FieldCheckRecord() {
         <p className="text-sm">{renderUnits(r.message, sys)}.</p>
         {cross ? (
           <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-cross">
-            {crossSentences(cross, { flow: (v) => fmtFlow(sys, v), head: (v) => fmtHead(sys, v) }).map((t, i) => (
+            {crossSentences(cross, { flow: (v, against = [], limit) => fmtQExact(sys, "flow", v, against, limit), head: (v, against = [], limit) => fmtQExact(sys, "head", v, against, limit) }).map((t, i) => (
               <p key={i} className={i === 0 ? "text-slate-600" : ""}>
                 {t}
               </p>

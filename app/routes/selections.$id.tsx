@@ -19,7 +19,7 @@ import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtPressure, fmtQ } from "~/lib/shared/units";
 import { DEFAULT_FLOW_TOLERANCE, type FlowTolerance } from "~/engine";
-import { fmtPctLimit } from "~/engine/quantityText";
+import { fmtPctSide } from "~/engine/quantityText";
 import { fmtDate } from "~/lib/shared/format";
 import { ListTable } from "~/components/ListTable";
 
@@ -40,7 +40,7 @@ const FITTING_NAMES = Object.fromEntries(EDITOR_FITTINGS) as Record<string, stri
 /** The duty flow tolerance as the verdict's rule writes it ("−2.5 %/+12.5 %", engine verdict.ts): never rounded to whole percent beside it. */
 const toleranceText = (t: FlowTolerance | undefined) => {
   const tol = t ?? DEFAULT_FLOW_TOLERANCE;
-  return `−${fmtPctLimit(tol.minus)}/+${fmtPctLimit(tol.plus)}`;
+  return `${fmtPctSide(tol.minus, "−")}/${fmtPctSide(tol.plus, "+")}`;
 };
 
 export default function SelectionReport() {

@@ -3,7 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSide } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -46,19 +46,31 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
 
 // A deviation never reads as the limit it is judged against; limits read as typed (2.5 %, not rounded to 3 %).
 const pc = (x: number, allowed: readonly [number, number]) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), allowed)}`;
-const tol = (a: readonly [number, number]) => `−${fmtPctLimit(a[0])} to +${fmtPctLimit(a[1])}`;
+const tol = (a: readonly [number, number]) => `${fmtPctSide(a[0], "−")} to ${fmtPctSide(a[1], "+")}`; // grade 1U's flow: "0 % to +10 %", not "−0 %"
+
+/**
+ * Formats a flow (m³/s) or a head (m) in the reader's units; with `against`, the values it is judged beside, with the
+ * decimals that keep it apart from them (`fmtQExact`; `limit`: the curve's value, its added zeros dropped).
+ */
+type CrossFormat = (v: number, against?: readonly number[], limit?: boolean) => string;
 
 /** Sentences for the page and mail; flows and heads formatted by the caller's units. */
-export function crossSentences(x: CrossExplanation, fmt: { flow: (v: number) => string; head: (v: number) => string }): string[] {
+export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; head: CrossFormat }): string[] {
   const out = [
     `Grade ${x.grade} is judged with ISO 9906's tolerance cross around the curve at the delivered point: a head arm and a flow arm; meeting either arm meets the grade.`,
   ];
   const line = (a: CrossArm) => {
-    const at = a.arm === "head" ? `at the measured ${fmt.flow(x.flow.measured)} the curve gives ${a.curveValue !== null ? fmt.head(a.curveValue) : "no head"}` : `at the measured ${fmt.head(x.head.measured)} the curve gives ${a.curveValue !== null ? fmt.flow(a.curveValue) : "no flow"}`;
-    const meas = a.arm === "head" ? fmt.head(a.measured) : fmt.flow(a.measured);
+    const edgeMet = a.pass && a.margin !== null && Math.abs(a.margin) <= EDGE;
+    // The measured value and the curve's read apart (a grade allowing 0 % on one side misses by less than the unit's
+    // digits: "the curve gives 33.0 m³/h; the measured 33.0 m³/h is −0.01 % … not met"); on the edge they are one value.
+    const own = a.arm === "head" ? fmt.head : fmt.flow;
+    const apart = a.curveValue !== null && !edgeMet;
+    const curve = a.curveValue === null ? null : apart ? own(a.curveValue, [a.measured], true) : own(a.curveValue);
+    const at = a.arm === "head" ? `at the measured ${fmt.flow(x.flow.measured)} the curve gives ${curve ?? "no head"}` : `at the measured ${fmt.head(x.head.measured)} the curve gives ${curve ?? "no flow"}`;
+    const meas = apart ? own(a.measured, [a.curveValue!]) : own(a.measured);
     if (a.deviation === null || a.margin === null) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at} — not met (off the curve).`;
     // On the edge within the rounding allowance: met, and said with the limit's own number (never "met, … outside").
-    if (a.pass && Math.abs(a.margin) <= EDGE) {
+    if (edgeMet) {
       const upper = a.allowed[1] - a.deviation <= a.deviation + a.allowed[0];
       const limit = upper ? a.allowed[1] : a.allowed[0];
       const edge = limit === 0 ? "0 %" : `${upper ? "+" : "−"}${fmtPctLimit(limit)}`;

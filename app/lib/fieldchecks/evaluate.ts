@@ -208,7 +208,9 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const speedOutside = speedRatio !== null && (speedRatio < SPEED_RANGE[0] || speedRatio > SPEED_RANGE[1]) && verdict !== "unknown";
   if (speedOutside) {
     verdict = "unknown";
-    warnings.push(`No tolerance verdict: the measured speed (${Math.round(measured!)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${Math.round(rated!)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
+    // The speeds with the decimals that keep the measured one off the range's ends (a drive at 24.99 Hz of 50 Hz × 1450 rpm
+    // is 724.7 rpm, not "725 rpm", which is 50 % of 1450 rpm, inside the range).
+    warnings.push(`No tolerance verdict: the measured speed (${fmtNumExact(measured!, SPEED_RANGE.map((f) => f * rated!), 0)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${fmtNumExact(rated!, [Math.round(rated!)], 0)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
   // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
   const withinWords = within && verdict === "marginal"

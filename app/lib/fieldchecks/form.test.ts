@@ -54,6 +54,17 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
     expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C — the form's plausibility bounds for a user-defined liquid/);
   });
 
+  it("each end the hint shows in °F is taken as typed: 392 °F (200 °C, 200.00000000000003 once converted) and −4 °F", () => {
+    // 200 °C = 392 °F and −20 °C = −4 °F exactly (°F = °C × 9/5 + 32, by definition); 392 °F was refused as too high.
+    expect(temperatureRangeText(custom, "F")).toBe("−4 to 392 °F");
+    for (const t of [392, -4]) {
+      const r = at(custom, t, "F");
+      expect(r.ok || r.errors.temperature, `${t} °F`).toBe(true);
+      if (r.ok) expect(r.readings.temperatureC, `${t} °F`).toBe(t === 392 ? 200 : -20);
+    }
+    expect(at(custom, 392.01, "F").ok).toBe(false);
+  });
+
   it("the field's hint says the same range in the unit chosen", () => {
     expect(temperatureRangeText(water, "C")).toBe("0 to 100 °C");
     expect(temperatureRangeText(water, "F")).toBe("32 to 212 °F");

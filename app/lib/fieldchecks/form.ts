@@ -175,6 +175,8 @@ export function temperatureRangeText(liquid: LiquidKind, unit: string): string {
 }
 
 const MAX_NOTES = 4000;
+/** A temperature this close to an end of the range (°C) is on it: far below any thermometer, above a conversion's rounding. */
+const END_SLACK_C = 1e-9;
 
 /**
  * Reads the raw form into SI readings, with a message per bad field. Limits are plausibility
@@ -269,6 +271,9 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
 
   let temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit);
   const tLimits = temperatureLimitsC(liquid);
+  // A reading typed as an end the hint shows is that end: 392 °F converts to 200.00000000000003 °C, and was refused as
+  // "too high: the form takes −4 to 392 °F" (the conversion's last bit, not the reading).
+  for (const end of [tLimits.min, tLimits.max]) if (temperatureC !== null && Math.abs(temperatureC - end) <= END_SLACK_C) temperatureC = end;
   if (temperatureC !== null && (temperatureC < tLimits.min || temperatureC > tLimits.max)) {
     errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)} — ${tLimits.rule}.`;
     temperatureC = null;

@@ -5,7 +5,7 @@
 // curve: B changes with the speed and the BEP, so the correction is made again at each ratio tried. Pure: used by
 // evaluateCandidate (hydraulics.ts) and the oversized verdict's savings (candidate-judgement.ts).
 import { bisection, correctCurveForViscosity, headAt, scaleBySpeed, scaleByTrim, speedForDuty, trimForDuty, type PumpCurve, type RatioSolution } from "~/engine";
-import { qt } from "~/engine/quantityText";
+import { qt, qtPair } from "~/engine/quantityText";
 import type { Adjustment } from "./candidate-input";
 import type { Liquid } from "./viscosity-check";
 import { roundUpSetting, roundingNote } from "./setting-step";
@@ -72,7 +72,8 @@ export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: nu
   const n = adj.arrangement === "single" ? 1 : adj.dutyPumps;
   const hSys = duty.systemHead;
   const perPump = adj.arrangement === "parallel" ? { flow: duty.flow / n, head: hSys } : adj.arrangement === "series" ? { flow: duty.flow, head: hSys / n } : { flow: duty.flow, head: hSys };
-  const where = `the system's head at the duty flow ${qt("flow", duty.flow)}, ${qt("head", hSys)} at ${duty.edge} (typed duty head ${qt("head", duty.typedHead)})`;
+  const whereWith = (head: string) => `the system's head at the duty flow ${qt("flow", duty.flow)}, ${head} at ${duty.edge} (typed duty head ${qt("head", duty.typedHead)})`;
+  const where = whereWith(qt("head", hSys));
   const full = adj.method === "trim" ? "impeller" : "speed";
   const pub = { speed: base.speed ?? null, impellerDiameter: base.impellerDiameter ?? null };
   // Downhill: no pump head is needed at the duty flow, so there is no speed or trim to solve for (the engine
@@ -94,7 +95,9 @@ export function adjustedRatio(base: PumpCurve, adj: Adjustment, duty: { flow: nu
   }
   if (sol.status === "duty-above-curve") {
     const h1 = perPump.flow >= base.flowMin && perPump.flow <= base.flowMax ? headAt(base, perPump.flow) : null;
-    return { ratio: 1, warnings, note: `could not be solved: ${where} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${qt("head", h1)} per pump at ${qt("flow", perPump.flow)})` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it` };
+    // Where one pump must give the system's head (single, parallel), the two read apart: never "30.0 m is above … (30.0 m per pump)".
+    const [needs, gives] = h1 != null && perPump.head === hSys ? qtPair("head", hSys, h1) : [qt("head", hSys), h1 != null ? qt("head", h1) : ""];
+    return { ratio: 1, warnings, note: `could not be solved: ${whereWith(needs)} is above what the ${adj.method === "trim" ? "untrimmed impeller" : "pump at full speed"} gives${h1 != null ? ` (${gives} per pump at ${qt("flow", perPump.flow)})` : ""}; ${adj.method === "trim" ? "trimming" : "slowing down"} cannot raise it` };
   }
   return { ratio: 1, warnings, note: `could not be solved against ${where}: ${sol.message}` };
 }
