@@ -107,7 +107,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
       if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQExact(unitSystem, "head", f.npshAvailable, [0])}, at or below zero (cavitation-risk)</span>;
       return f?.npshMarginRatio != null ? <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span> : "—";
     }],
-    ["Largest power on curve", (c) => perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c))],
+    ["Largest power on curve", (c) => (c.result?.figures?.motorLimit != null && c.result.figures.maxPower != null ? `${fmtQExact(unitSystem, "power", c.result.figures.maxPower, [c.result.figures.motorLimit])}${basisOf(c) ? " per pump" : ""}` : perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c)))], // apart from the motor's limit beside it
     ["Motor", (c) => {
       const f = c.result?.figures;
       const mo = f?.motor;

@@ -255,6 +255,36 @@ function edgeMessage(c: PumpCurve, duty: { qd: number; hd: number }, edge: Curve
 }
 
 /**
+ * Why no speed within the limits meets the duty where the speed limit bounds it (or the flow is off the curve at every
+ * allowed speed): the duty, the pump's head at the duty flow at the limit that binds (or the curve's flow range there) and
+ * the limit, each head or flow kept apart from the duty's (qtPair), the limit as given (fmtPctLimit).
+ */
+function speedLimitMessage(c: PumpCurve, duty: { qd: number; hd: number }, status: NoRatio, lo: number, hi: number): string {
+  const flow = qt("flow", duty.qd);
+  const headAtSpeed = (s: number) => {
+    const h = evalAtEnds(c.head, duty.qd / s);
+    return h === null ? null : s * s * h;
+  };
+  if (status === "duty-above-curve" || status === "duty-below-limit") {
+    const above = status === "duty-above-curve";
+    const h = headAtSpeed(above ? hi : lo);
+    if (h !== null) {
+      const [gives, needs] = qtPair("head", h, duty.hd);
+      return above
+        ? `the duty head ${needs} at ${flow} is above the curve even at the highest allowed speed, ${fmtPctLimit(hi)}: there the pump gives ${gives} at this flow`
+        : `the duty head ${needs} at ${flow} needs a speed below the lowest allowed, ${fmtPctLimit(lo)}: there the pump gives ${gives} at this flow, more than the duty's`;
+    }
+  } else if (duty.qd / c.flowMax > hi) {
+    const [q, end] = qtPair("flow", duty.qd, c.flowMax * hi);
+    return `the duty flow ${q} lies past the curve's end at every allowed speed: at the highest, ${fmtPctLimit(hi)}, the curve spans ${qt("flow", c.flowMin * hi)}–${end}${hi === 1 ? "" : ` (${qt("flow", c.flowMax)} as published at 100 %)`}`;
+  } else if (c.flowMin > 0 && duty.qd / c.flowMin < lo) {
+    const [q, start] = qtPair("flow", duty.qd, c.flowMin * lo);
+    return `the duty flow ${q} lies before the curve's first point at every allowed speed: at the lowest, ${fmtPctLimit(lo)}, the curve spans ${start}–${qt("flow", c.flowMax * lo)}${lo === 1 ? "" : ` (${qt("flow", c.flowMin)} as published at 100 %)`}`;
+  }
+  return `the duty ${flow} at ${qt("head", duty.hd)} is not met at any allowed speed, ${fmtPctLimit(lo)}–${fmtPctLimit(hi)}`;
+}
+
+/**
  * Speed ratio that puts the curve through the duty point (flow, head on the system curve).
  * @param curve pump curve (prepared or raw; SI)
  * @param duty.flow duty flow, m³/s
@@ -270,11 +300,7 @@ export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: nu
   if (lo > hi) throw new EngineInputError("limits.min", "must not exceed limits.max");
   const r = solveRatio(c, qd, hd, 1, lo, hi);
   if (r.status !== "ok") {
-    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `${fmtPct(s)} speed`) : {
-      "duty-above-curve": "duty head is above the curve even at the highest allowed speed",
-      "outside-curve": "duty flow falls outside the curve at every allowed speed",
-      "duty-below-limit": "duty needs a speed below the lowest allowed",
-    }[r.status], r.status === "outside-curve" ? r.edge : null);
+    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `${fmtPct(s)} speed`) : speedLimitMessage(c, { qd, hd }, r.status, lo, hi), r.status === "outside-curve" ? r.edge : null);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);

@@ -57,7 +57,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
@@ -204,9 +204,10 @@ export interface DutyCycleInput {
 /**
  * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
  * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
- * reach at full speed (`asks`: whose head it is). Null where none of these holds (the solver's own words then).
+ * reach at full speed (`asks`: whose head it is; `pumpGives`: whose curve, one pump or the duty pumps together). Null where
+ * none of these holds (the solver's own words then).
  */
-function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string): string | null {
+function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string, pumpGives: string): string | null {
   // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
   const set = maxSpeed > 1;
   const top = set ? `${fmtPct(maxSpeed, 0)} speed (the candidate's set speed)` : "full speed (100 %)";
@@ -221,14 +222,14 @@ function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: numbe
   const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
   if (q < lowStart) {
     const [flow, start] = qtPair("flow", q, lowStart);
-    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPct(minSpeed, 0)}, to 100 %: at ${fmtPct(minSpeed, 0)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
+    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPctLimit(minSpeed)}, to 100 %: at ${fmtPctLimit(minSpeed)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
   }
   const h1 = q / maxSpeed >= curve.flowMin ? headAt(curve, q / maxSpeed) : null; // at the highest speed (affinity laws)
   if (h1 === null) return null;
   const hp = h1 * maxSpeed * maxSpeed;
   if (!(hp < head)) return null;
   const [gives, needs] = qtPair("head", hp, head);
-  return `at ${qt("flow", q)} the pump gives ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
+  return `at ${qt("flow", q)} ${pumpGives} ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
 }
 
 /**
@@ -255,6 +256,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   const units = input.motor.units === undefined ? 1 : requirePositive("motor.units", input.motor.units);
   if (!Number.isInteger(units)) throw new EngineInputError("motor.units", "is a whole number of motors");
   const theMotor = units === 1 ? "the motor" : `each of the ${units} motors`;
+  const pumpGives = units === 1 ? "the pump gives" : `the ${units} pumps together give`; // the curve is theirs together
   const etaD = input.driveEfficiency === null || input.driveEfficiency === undefined ? null : requirePositive("driveEfficiency", input.driveEfficiency);
   if (etaD !== null && etaD > 1) throw new EngineInputError("driveEfficiency", "is a fraction 0–1");
   if (vfd && etaD === null) throw new EngineInputError("driveEfficiency", `control mode "${mode}" runs on a drive: give its efficiency`);
@@ -299,7 +301,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       if (hp === null) return none("beyond-curve", `${qtExact("flow", q, [curve.flowMin, curve.flowMax])} is outside the pump's curve (${qtLimit("flow", curve.flowMin, [q])}–${qtLimit("flow", curve.flowMax, [q])}) at fixed speed`);
       if (hp < hSys * (1 - 1e-9)) {
         const [gives, system] = qtPair("head", hp, hSys); // never read as equal beside "below"
-        return none("beyond-curve", `at ${qt("flow", q)} the pump gives ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
+        return none("beyond-curve", `at ${qt("flow", q)} ${pumpGives} ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       }
       head = hp;
       n = fixedRatio;
@@ -332,25 +334,25 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         // the point on the lowest-speed curve at this flow (affinity laws).
         const q1 = q / minSpeed;
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
-        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPct(minSpeed, 0)} and lies off the curve there (at ${fmtPct(minSpeed, 0)} speed it spans ${qt("flow", curve.flowMin * minSpeed)}–${qt("flow", curve.flowMax * minSpeed)})`, head);
+        if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPctLimit(minSpeed)} and lies off the curve there (at ${fmtPctLimit(minSpeed)} speed it spans ${qt("flow", curve.flowMin * minSpeed)}–${qt("flow", curve.flowMax * minSpeed)})`, head);
         const asked = head;
         head = h1 * minSpeed * minSpeed;
         n = minSpeed;
         lowest = true;
         // Said at the step with its numbers: the energy is at the pump's head at the lowest speed, not the head asked.
         const [gives, needs] = qtPair("head", head, asked);
-        warnings.push({ code: "held-at-min-speed", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the drive holds its lowest speed, ${fmtPct(minSpeed, 0)} (common practice, assumed: check the drive's and the pump's minimum speed): the pump gives ${gives} at ${qt("flow", q)}, ${mode === "system-curve" ? "the system needs" : "the control curve asks"} ${needs}, so ${qt("head", head - asked)} is throttled by a valve; the energy is at this speed with the pump's head` });
+        warnings.push({ code: "held-at-min-speed", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow the drive holds its lowest speed, ${fmtPctLimit(minSpeed)} (common practice, assumed: check the drive's and the pump's minimum speed): ${pumpGives} ${gives} at ${qt("flow", q)}, ${mode === "system-curve" ? "the system needs" : "the control curve asks"} ${needs}, so ${qt("head", head - asked)} is throttled by a valve; the energy is at this speed with the pump's head` });
       } else if (sol.status === "outside-curve" && sol.edge?.at === "end") {
         // Past the curve's end at every on-curve speed: held at the lowest on-curve speed, the surplus throttled (module comment).
         n = sol.edge.ratio;
         const hPump = n * n * headAt(curve, curve.flowMax)!;
         const [gives, needs] = qtPair("head", hPump, head);
         const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
-        throttled = `at ${fmtPct(n)} speed, the lowest where ${qt("flow", q)} is on the curve (its end: ${qt("flow", curve.flowMax)} as published at full speed); the pump gives ${gives}, ${asks} ${needs}: ${qt("head", hPump - head)} throttled by a valve or the system's balancing (common practice: a drive is not run below the speed at which the flow leaves the curve); energy at this speed and flow with the pump's head`;
+        throttled = `at ${fmtPct(n)} speed, the lowest where ${qt("flow", q)} is on the curve (its end: ${qt("flow", curve.flowMax)} as published at full speed); ${pumpGives} ${gives}, ${asks} ${needs}: ${qt("head", hPump - head)} throttled by a valve or the system's balancing (common practice: a drive is not run below the speed at which the flow leaves the curve); energy at this speed and flow with the pump's head`;
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
         const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
-        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks, pumpGives) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
@@ -377,7 +379,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,
       energyKWh: (electricalPower * s.hours) / 1000, status: throttled ? "throttled-at-min-on-curve-speed" : "ok",
-      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPct(n, 0)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
+      message: throttled ?? (lowest ? `held at the lowest speed ${fmtPctLimit(n)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
     };
   });
   const complete = steps.every((s) => stepCounted(s) || s.hours === 0);

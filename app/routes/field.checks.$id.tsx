@@ -8,11 +8,11 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { crossOf, crossSentences, gradeRule, inputPowerW, powerGradeSentences, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { crossOf, crossSentences, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -69,6 +69,9 @@ export default function FieldCheckRecord() {
   const band = e.flowBand;
   const cross = crossOf(r);
   const rpm = speedRpm(rd.speed);
+  // The measured speed apart from the ends of the range the curve may be translated in (the warning's numbers), never "1450 rpm" for 1449.7.
+  const ends = r.speed.rated !== null ? SPEED_RANGE.map((f) => f * r.speed.rated!) : [];
+  const rpmApart = fmtNumExact(rpm, ends, 0);
   const pin = inputPowerW(rd.power);
   return (
     <article className="mx-auto max-w-3xl space-y-4">
@@ -128,9 +131,9 @@ export default function FieldCheckRecord() {
           <dd>{fmtHead(sys, e.curveHead)}</dd>
           <dt className="text-slate-600">Speed</dt>
           <dd>
-            {r.speed.measured !== null ? `${Math.round(r.speed.measured)} rpm measured` : "not entered"}
+            {r.speed.measured !== null ? `${fmtNumExact(r.speed.measured, ends, 0)} rpm measured` : "not entered"}
             {r.speed.design !== null ? ` · ${Math.round(r.speed.design)} rpm selected` : ""}
-            {r.speed.rated !== null ? ` · curve at ${Math.round(r.speed.rated)} rpm` : ""}
+            {r.speed.rated !== null ? ` · curve at ${fmtNumExact(r.speed.rated, [Math.round(r.speed.rated)], 0)} rpm` : ""}
           </dd>
           {r.power ? (
             <>
@@ -188,7 +191,7 @@ export default function FieldCheckRecord() {
           <dt className="text-slate-600">Flow meter</dt>
           <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtNum(rd.flowAccuracy * 100, 1)} %` : ""}` : "none"}</dd>
           <dt className="text-slate-600">Speed</dt>
-          <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${fmtNum(rpm, 0)} rpm` : rpm !== null ? `${fmtNum(rpm, 0)} rpm` : "not entered"}</dd>
+          <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${rpmApart} rpm` : rpm !== null ? `${rpmApart} rpm` : "not entered"}</dd>
           <dt className="text-slate-600">Power</dt>
           <dd>
             {rd.power.mode === "electrical"

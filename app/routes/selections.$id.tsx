@@ -105,7 +105,7 @@ export default function SelectionReport() {
           <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
             <dt className="text-slate-600">Duty point</dt>
             <dd>{input.duty ? `${fmtFlow(sys, input.duty.flow)} at ${fmtHead(sys, input.duty.head)}` : "not set"}</dd>
-            <dt className="text-slate-600">Operating point</dt>
+            <dt className="text-slate-600">Operating point (design curve)</dt>
             <dd className="font-semibold" data-testid="report-operating">
               {f.result.operating
                 ? f.result.operating.flow === 0

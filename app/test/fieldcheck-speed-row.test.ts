@@ -1,0 +1,60 @@
+// A recorded check whose measured speed lies just outside the range the curve may be translated in: the page's "Speed"
+// rows (the result's and the readings') print it apart from the range's end, as the warning beside them does — 1449.7 rpm
+// of a 2900 rpm curve read "1450 rpm measured" (50 % of 2900 rpm, inside) beside "No tolerance verdict: the measured
+// speed (1449.7 rpm) is 49.99 % …". rpm reads the same in SI and US units. Real route module, guards and MariaDB
+// (app/test/harness.ts). Check values: the 50–120 % range (ISO 9906, from memory; SPEED_RANGE); the fixture curve is an
+// invented straight line at 2900 rpm (app/test/fieldcheck-fixture.ts).
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
+import { createRoutesStub } from "react-router";
+import { afterAll, beforeAll, expect, test } from "vitest";
+import { closeDb } from "@db/client.server";
+import { fluidAt } from "~/engine";
+import { viewerOfUser } from "~/lib/projects/test-kit";
+import { parseCheckFields } from "~/lib/fieldchecks";
+import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import * as checkPage from "~/routes/field.checks.$id";
+import { call, makeMember, type TestMember } from "./harness";
+import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
+
+afterAll(() => closeDb());
+
+const RHO20 = fluidAt({ kind: "water" }, 20).density;
+let m: TestMember;
+const ids: Record<string, number> = {};
+
+beforeAll(async () => {
+  m = await makeMember("admin");
+  const v = await viewerOfUser(m.userId);
+  const { selectionId } = await storeSelection(m.workspaceId, m.userId, undefined, "Speed row");
+  // 1449.7 rpm: 49.99 % of 2900 rpm (below 50 %); 3480.3 rpm: 120.01 % (above 120 %); 2000 rpm: inside, a whole number.
+  for (const rpm of ["1449.7", "3480.3", "2000"]) {
+    const p = parseCheckFields(fieldsForHead(28, RHO20, { flow: "0.012", rpm }), { kind: "water" });
+    if (!p.ok) throw new Error(JSON.stringify(p.errors));
+    ids[rpm] = (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  }
+});
+
+async function speedRows(id: number): Promise<{ rows: string[]; html: string }> {
+  const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
+  expect(r.status).toBe(200);
+  const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
+  const html = renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
+  return { rows: [...html.matchAll(/<dt class="text-slate-600">Speed<\/dt><dd>(.*?)<\/dd>/g)].map((x) => x[1]), html };
+}
+
+test("1449.7 rpm, below 50 % of the curve's 2900 rpm: both Speed rows read 1449.7 rpm, not the range's end 1450 rpm", async () => {
+  const { rows, html } = await speedRows(ids["1449.7"]);
+  expect(html).toContain("the measured speed (1449.7 rpm) is 49.99 % of the curve's 2900 rpm, outside the 50 %–120 %"); // the warning beside
+  expect(rows).toEqual(["1449.7 rpm measured · 2900 rpm selected · curve at 2900 rpm", "1449.7 rpm"]);
+});
+
+test("3480.3 rpm, above 120 % of 2900 rpm (3480 rpm): read apart from it", async () => {
+  const { rows } = await speedRows(ids["3480.3"]);
+  expect(rows).toEqual(["3480.3 rpm measured · 2900 rpm selected · curve at 2900 rpm", "3480.3 rpm"]);
+});
+
+test("a speed well inside the range reads as it always did, to the whole rpm", async () => {
+  const { rows } = await speedRows(ids["2000"]);
+  expect(rows).toEqual(["2000 rpm measured · 2900 rpm selected · curve at 2900 rpm", "2000 rpm"]);
+});
