@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import { lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, pumpsRunningText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
@@ -24,6 +24,13 @@ export function incompleteMark(cycle: Energy["cycle"] | undefined): string {
   if (!cycle || cycle.complete) return "";
   return ` (incomplete: ${missingStepsText(cycle)})`;
 }
+
+/** Whether a cycle's pumps in parallel are staged by demand (engine dutyStaging.ts): its steps say how many run; none in cycles frozen before. */
+export const cycleStaged = (cycle: Pick<Cycle, "steps"> | null | undefined): boolean => !!cycle?.steps.some((s) => s.pumpsRunning != null);
+
+/** A staged step's shaft power: the running pumps' together, and one pump's beside it where several run. */
+const shaftText = (u: UnitChoice, s: Cycle["steps"][number]) =>
+  s.pumpsRunning != null && s.pumpsRunning > 1 && s.pumpShaftPower != null ? `${fmtPower(u, s.shaftPower)}, ${fmtPower(u, s.pumpShaftPower)} each` : fmtPower(u, s.shaftPower);
 
 /** The cycle's hours and energy columns, each at one precision with its total (energy-numbers.ts). */
 export const cycleColumns = (cycle: Cycle) => ({
@@ -128,6 +135,8 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
   const e = c.energy;
   const lcc = lccShown(e);
   const cols = e?.cycle ? cycleColumns(e.cycle) : null;
+  const staged = cycleStaged(e?.cycle);
+  const span = staged ? 1 : 0; // the "Pumps running" column
   return (
     <div className="space-y-1" data-testid={`cycle-${c.id}`}>
       <h3 className="text-sm font-semibold">
@@ -136,7 +145,9 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
       </h3>
       {e?.cycle && cycleBasis(c) ? (
         <p className="text-xs text-slate-600" data-testid={`cycle-basis-${c.id}`}>
-          {cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the {cycleBasis(c)!.together}{c.adjustment?.standbyPumps ? " (standby pumps do not run)" : ""}; each motor is one pump&apos;s.
+          {staged
+            ? `${cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the duty pumps running at each step (“Pumps running”), staged by demand${c.adjustment?.standbyPumps ? "; standby pumps never run" : ""}; each motor is one pump's.`
+            : <>{cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the {cycleBasis(c)!.together}{c.adjustment?.standbyPumps ? " (standby pumps do not run)" : ""}; each motor is one pump&apos;s.</>}
         </p>
       ) : null}
       {!e ? <p className="text-xs text-slate-600">Not computed.</p> : e.cycleError ? <p className="text-xs text-duty-ink">{e.cycleError}.</p> : null}
@@ -150,7 +161,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
           <table className="w-full text-xs" aria-label={`Duty cycle of ${c.label}`}>
             <thead>
               <tr className="text-left text-slate-600">
-                {["Flow %", "Flow", "Head", "Speed", "Pump η", "Shaft", "Motor η", "Drive η", "Electrical", "Hours", "Energy"].map((h) => (
+                {["Flow %", ...(staged ? ["Pumps running"] : []), "Flow", "Head", "Speed", "Pump η", "Shaft", "Motor η", "Drive η", "Electrical", "Hours", "Energy"].map((h) => (
                   <th key={h} className="pr-2 font-normal">
                     {h}
                   </th>
@@ -162,6 +173,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                 <Fragment key={i}>
                   <tr className="border-t border-slate-100">
                     <td className="pr-2">{fmtNum(s.flowFraction * 100, 0)} %</td>
+                    {staged ? <td className="pr-2" data-testid={`pumps-running-${c.id}-${i}`}>{pumpsRunningText(s)}</td> : null}
                     <td className="pr-2">{fmtFlow(unitSystem, s.flow)}</td>
                     <td className="pr-2">{fmtHead(unitSystem, s.head)}</td>
                     {s.status === "ok" || s.status === "throttled-at-min-on-curve-speed" ? (
@@ -170,7 +182,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                             held at the lowest on-curve speed: the speed here, the engine's rule and numbers on the row below. */}
                         <td className="pr-2">{s.status === "ok" ? s.message || fmtPct(s.speedRatio, 0) : `${fmtPct(s.speedRatio)} speed, throttled`}</td>
                         <td className="pr-2">{fmtPct(s.efficiency)}</td>
-                        <td className="pr-2">{fmtPower(unitSystem, s.shaftPower)}</td>
+                        <td className="pr-2">{shaftText(unitSystem, s)}</td>
                         <td className="pr-2">{fmtPct(s.motorEfficiency)}</td>
                         <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
                         <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
@@ -191,7 +203,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                   {s.status === "throttled-at-min-on-curve-speed" && (
                     <tr>
                       <td />
-                      <td colSpan={10} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
+                      <td colSpan={10 + span} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
                         {stepVerdict(s)}: {s.message}
                       </td>
                     </tr>
@@ -199,7 +211,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                   {stepWarnings(e.cycle!, i).map((w) => (
                     <tr key={w}>
                       <td />
-                      <td colSpan={10} className="pr-2 text-duty-ink">
+                      <td colSpan={10 + span} className="pr-2 text-duty-ink">
                         ▲ {w}
                       </td>
                     </tr>
@@ -207,7 +219,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                 </Fragment>
               ))}
               <tr className="border-t border-slate-300 font-semibold">
-                <td colSpan={9} className="pr-2">
+                <td colSpan={9 + span} className="pr-2">
                   Total per year{e.cycle.complete ? "" : `${incompleteMark(e.cycle)}: their energy is missing`}
                 </td>
                 <td className="pr-2">{cols.hours.total}</td>
@@ -217,7 +229,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
               </tr>
               {roundedNote(cols) ? (
                 <tr>
-                  <td colSpan={11} className="pr-2 text-slate-600" data-testid={`cycle-rounded-${c.id}`}>
+                  <td colSpan={11 + span} className="pr-2 text-slate-600" data-testid={`cycle-rounded-${c.id}`}>
                     {roundedNote(cols)}
                   </td>
                 </tr>

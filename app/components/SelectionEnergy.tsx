@@ -1,6 +1,8 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
-import { lccRatesText, lccShown, noStepCounted, type CandidateEnergy } from "~/lib/projects/energy";
-import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, incompleteMark, lccText } from "~/components/CandidateEnergy";
+import { lccRatesText, lccShown, noStepCounted, pumpsRunningText, type CandidateEnergy } from "~/lib/projects/energy";
+import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, cycleStaged, incompleteMark, lccText } from "~/components/CandidateEnergy";
+import { stepName } from "~/components/cycle-notes";
+import { PARALLEL_STAGING_RULE } from "~/engine";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleNoteLines } from "~/components/cycle-notes";
 import type { UnitChoice } from "~/lib/shared/units";
@@ -26,6 +28,12 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
         {lcc ? ` (${lcc.source})` : ""}.
       </p>
+      {/* Pumps in parallel staged by demand: how many run at each step, with the rule (the screen's "Pumps running" column). */}
+      {e.cycle && cycleStaged(e.cycle) ? (
+        <p className="hidden text-xs print:block" data-testid="pumps-running-print">
+          Pumps running: {e.cycle.steps.map((s) => `${stepName(s)}: ${pumpsRunningText(s)}`).join("; ")} ({PARALLEL_STAGING_RULE}).
+        </p>
+      ) : null}
       {/* A step not met or not computed, and each warning, printed at its step with the engine's message. */}
       {e.cycle && cycleNoteLines(e.cycle).length > 0 ? (
         <ul className="hidden list-disc pl-5 text-xs text-duty-ink print:block" data-testid="cycle-notes-print">

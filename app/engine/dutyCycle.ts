@@ -59,6 +59,7 @@ import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
+import { cycleTotals } from "./cycleTotals.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -120,12 +121,7 @@ export const PART_LOAD_SOURCE = "motor and drive part-load factors: common pract
 /** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
 export type StepStatus = "ok" | "gravity-flow" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
-/**
- * Steps whose energy is in the total: computed (`ok`, `throttled-at-min-on-curve-speed`) or no pumping needed
- * (`gravity-flow`, 0 kWh); the others leave the cycle incomplete.
- */
-export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "throttled-at-min-on-curve-speed"];
-const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);
+export { COUNTED_STEP_STATUSES } from "./cycleTotals.ts";
 
 export interface StepResult {
   flowFraction: number;
@@ -149,6 +145,11 @@ export interface StepResult {
   energyKWh: number | null;
   status: StepStatus;
   message: string;
+  /** Pumps in parallel staged by demand (dutyStaging.ts; absent otherwise): duty pumps running at this step (count, 0 when stopped), of `dutyPumps` (count). */
+  pumpsRunning?: number;
+  dutyPumps?: number;
+  /** Staged: one running pump's shaft power, W (`shaftPower` is the running pumps' together). */
+  pumpShaftPower?: number | null;
 }
 
 export interface DutyCycleResult {
@@ -382,15 +383,6 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       message: throttled ?? (lowest ? `held at the lowest speed ${fmtPctLimit(n)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
     };
   });
-  const complete = steps.every((s) => stepCounted(s) || s.hours === 0);
-  if (!complete) {
-    const missing = steps.filter((s) => !stepCounted(s) && s.hours > 0);
-    const notComputed = missing.filter((s) => s.status === "no-power-data").length;
-    const notMet = missing.length - notComputed;
-    const of = (n: number) => `${n} of ${steps.length} step${steps.length === 1 ? "" : "s"} with running hours`;
-    const parts = [notMet > 0 ? `${of(notMet)} not met by this pump or on this control curve` : "", notComputed > 0 ? `${of(notComputed)} not computed (the curve has no power data there)` : ""].filter(Boolean);
-    warnings.push({ code: "cycle-incomplete", message: `${parts.join("; ")}: their energy is missing from the total` });
-  }
-  const annualEnergyKWh = steps.reduce((sum, s) => sum + (s.energyKWh ?? 0), 0);
+  const { complete, annualEnergyKWh } = cycleTotals(steps, warnings);
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

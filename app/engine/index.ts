@@ -46,3 +46,6 @@ export {
   MAX_FLOW_FRACTION, MAX_STEPS, MOTOR_PART_LOAD, DRIVE_PART_LOAD, PART_LOAD_SOURCE, COUNTED_STEP_STATUSES,
   type ControlMode, type DutyStep, type DutyCycleInput, type DutyCycleResult, type StepResult, type StepStatus,
 } from "./dutyCycle.ts";
+export {
+  stagedDutyCycleEnergy, PARALLEL_STAGING_RULE, type StagedDutyCycleInput,
+} from "./dutyStaging.ts";

@@ -146,6 +146,10 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
   const qd = 50 / 3600;
   const dc = (o: Partial<E.DutyCycleInput>): E.DutyCycleInput => ({ curve, systemHead: (q) => 28 * (q / qd) ** 2, designFlow: qd, mode: "system-curve",
     profile: [{ flowFraction: 1, hours: 500 }, { flowFraction: 0.5, hours: 2000 }], density: 998, motor: { rating: 5500, efficiency: 0.9 }, driveEfficiency: 0.97, ...o });
+  const sdc = (o: Partial<E.StagedDutyCycleInput>): E.StagedDutyCycleInput => {
+    const { curve: pumpCurve, motor: _m, ...rest } = dc({});
+    return { ...rest, pumpCurve, dutyPumps: 2, motor: { rating: 2750, efficiency: 0.9 }, ...o };
+  };
   const lcc = (o: Partial<E.LifeCycleInput>): E.LifeCycleInput => ({ purchasePrice: 1000, annualEnergyKWh: 1e4, tariffPerKWh: 0.2, years: 10, escalation: 0.03, discountRate: 0.05, ...o });
   const numeric: Record<string, [Arg, number, number[]][]> = {
     colebrook: [[(x) => E.colebrook(x, 1e-4), 1e5, [0, -1]], [(x) => E.colebrook(1e5, x), 1e-4, [-1e-4]]],
@@ -270,6 +274,11 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       [(x) => E.dutyCycleEnergy(dc({ driveEfficiency: x })), 0.97, [0, 1.5]],
       [(x) => E.dutyCycleEnergy(dc({ density: x })), 998, [0, -1]],
       [(x) => E.dutyCycleEnergy(dc({ minSpeedRatio: x })), 0.3, [0, 1]]],
+    stagedDutyCycleEnergy: [[(x) => E.stagedDutyCycleEnergy(sdc({ dutyPumps: x })), 2, [0, 1.5, 101]],
+      [(x) => E.stagedDutyCycleEnergy(sdc({ motor: { rating: x, efficiency: 0.9 } })), 2750, [0, -1]],
+      [(x) => E.stagedDutyCycleEnergy(sdc({ motor: { rating: 2750, efficiency: x } })), 0.9, [0, 1.5]],
+      [(x) => E.stagedDutyCycleEnergy(sdc({ designFlow: x })), 50 / 3600, [0, -1]],
+      [(x) => E.stagedDutyCycleEnergy(sdc({ profile: [{ flowFraction: x, hours: 1000 }] })), 0.5, [0, -1, 2]]],
     defaultCirculatorProfile: [[(x) => E.defaultCirculatorProfile(x), 4000, [-1, 9000]]],
     lifeCycleCost: [[(x) => E.lifeCycleCost(lcc({ purchasePrice: x })), 1000, [-1]], [(x) => E.lifeCycleCost(lcc({ annualEnergyKWh: x })), 1e4, [-1]],
       [(x) => E.lifeCycleCost(lcc({ tariffPerKWh: x })), 0.2, [-1]], [(x) => E.lifeCycleCost(lcc({ years: x })), 10, [0, 2.5, 51]],

@@ -87,7 +87,9 @@ describe.each(["parallel", "series"] as const)("2 pumps in %s: every power figur
     for (const perPump of ["max_power_on_curve", "motor_non_overloading", "motor_rating", "motor_suggested", "motor_suggestion_basis", "efficiency", "npsh_required"]) expect(rows.get(perPump)?.[2], perPump).toBe("per pump");
     for (const together of ["operating_flow", "hydraulic_power", "electrical_input", "annual_energy_electrical", "annual_cost"]) expect(rows.get(together)?.[2], together).toBe(total);
     for (const s of ["pump_curve", "band"]) expect(csvHeader(pages.csv, s), s).toContain("shaft_power_all_duty_pumps_w");
-    expect(csvHeader(pages.csv, "duty_cycle")).toEqual(expect.arrayContaining(["shaft_power_all_duty_pumps_w", "electrical_input_all_duty_pumps_w"]));
+    // The duty cycle's powers: all duty pumps' in series; in parallel the pumps running at each step (staged by demand, engine dutyStaging.ts).
+    const cyclePowers = name === "series" ? ["shaft_power_all_duty_pumps_w", "electrical_input_all_duty_pumps_w"] : ["pumps_running", "shaft_power_pumps_running_w", "shaft_power_per_pump_w", "electrical_input_pumps_running_w"];
+    expect(csvHeader(pages.csv, "duty_cycle")).toEqual(expect.arrayContaining(cyclePowers));
     expect(pages.csv.some((r) => r[0].startsWith(`# 2 pumps in ${name}`))).toBe(true);
   });
 });

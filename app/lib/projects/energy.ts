@@ -11,6 +11,8 @@ import {
   DEFAULT_DRIVE_EFFICIENCY,
   defaultCirculatorProfile,
   dutyCycleEnergy,
+  PARALLEL_STAGING_RULE,
+  stagedDutyCycleEnergy,
   EngineInputError,
   lifeCycleCost,
   MAX_FLOW_FRACTION,
@@ -23,6 +25,7 @@ import {
   type DutyCycleResult,
   type DutyStep,
   type LifeCycleResult,
+  type PumpCurve,
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { decimalMessage, readDecimal } from "../shared/decimal";
@@ -214,8 +217,14 @@ export function candidateEnergy(
       const sysHead = systemHeadFunction(prepared);
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
-      out.cycle = dutyCycleEnergy({ curve, systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
-        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined });
+      const common = { systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined };
+      // Pumps in parallel are staged by demand (engine dutyStaging.ts) on one pump's curve: the combined curve's flows and
+      // powers shared equally (combinePumps); in series every duty pump runs at every step.
+      if (c.adjustment.arrangement === "parallel" && pumps > 1) {
+        out.assumptions.push(`${PARALLEL_STAGING_RULE}.`);
+        out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: onePump(curve, pumps, density), dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
+      } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps } });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the
@@ -236,6 +245,12 @@ export function candidateEnergy(
     }
   }
   return out;
+}
+
+/** One of n identical pumps in parallel from their combined curve: flow and power ÷ n at equal head (multiple.ts, inverted). */
+function onePump(combined: PumpCurve, n: number, density: number): PumpCurve {
+  const points = combined.points.map((p) => ({ ...p, flow: p.flow / n, ...(p.power !== undefined ? { power: p.power / n } : {}) }));
+  return createPumpCurve({ points, powerDensity: density, riseTolerance: 1 });
 }
 
 /**
@@ -274,6 +289,10 @@ export function stepVerdict(s: { status: string }): string {
   if (s.status === "throttled-at-min-on-curve-speed") return "met, throttled at the lowest on-curve speed";
   return s.status === "no-power-data" ? "not computed" : "not met";
 }
+
+/** "1 of 2": the duty pumps running at a step of pumps in parallel staged by demand (engine dutyStaging.ts); "" at any other step. */
+export const pumpsRunningText = (s: { pumpsRunning?: number; dutyPumps?: number }): string =>
+  s.pumpsRunning == null || s.dutyPumps == null ? "" : `${s.pumpsRunning} of ${s.dutyPumps}`;
 
 /** The steps with hours whose energy is missing from the total: not met, and not computed (no power data). */
 export function missingSteps(cycle: { steps: readonly { status: string; hours: number }[] }): { notMet: number; notComputed: number } {

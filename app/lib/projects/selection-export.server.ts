@@ -2,7 +2,7 @@
 import type { FrozenSelection } from "./selections.server";
 import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
-import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, stepVerdict, stepWarnings } from "./energy";
+import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, pumpsRunningText, stepVerdict, stepWarnings } from "./energy";
 import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
 import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
@@ -70,7 +70,10 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   const traced = f.pump.library.traced;
   if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
   const basis = pumpsBasis(f.adjustment);
-  if (basis) lines.push(row([`# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
+  const staged = !!f.energy?.cycle?.steps.some((s) => s.pumpsRunning != null);
+  if (basis) lines.push(row([staged
+    ? `# ${basis.arrangement}: pump curve and band are of the ${basis.together} (flows, heads and powers); the duty cycle of the duty pumps running at each step (pumps_running, staged by demand; standby pumps never run); figures name their basis`
+    : `# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
   lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe; npsh_margin_ratio blank where NPSHa <= 0 (no ratio to NPSHr means anything there: NPSHa is beside it)"]));
   lines.push([]);
   const w = (name: string) => powerColumn(basis, name);
@@ -160,15 +163,19 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
 function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasis | null) {
   const cycle = f.energy?.cycle;
   if (cycle) {
+    // Pumps in parallel staged by demand (engine dutyStaging.ts): the pumps running at each step ("1 of 2") and one pump's
+    // shaft power beside the running pumps' together (cycles frozen before staging: as they were).
+    const staged = cycle.steps.some((s) => s.pumpsRunning != null);
+    const power = (name: string) => (staged ? name.replace(/_w$/, "_pumps_running_w") : powerColumn(basis, name));
     lines.push([]);
     lines.push(row([
-      "section", "step", "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", powerColumn(basis, "shaft_power_w"),
-      "load_fraction", "motor_efficiency", "drive_efficiency", powerColumn(basis, "electrical_input_w"), "energy_kwh", "engine_status", "message", "warnings",
+      "section", "step", ...(staged ? ["pumps_running"] : []), "flow_fraction", "hours_h", "flow_m3s", "head_m", "status", "speed_ratio", "pump_efficiency", power("shaft_power_w"),
+      ...(staged ? ["shaft_power_per_pump_w"] : []), "load_fraction", "motor_efficiency", "drive_efficiency", power("electrical_input_w"), "energy_kwh", "engine_status", "message", "warnings",
     ]));
     cycle.steps.forEach((st, i) =>
       lines.push(row([
-        "duty_cycle", i + 1, st.flowFraction, st.hours, st.flow, st.head, stepVerdict(st) || "met", st.speedRatio, st.efficiency, st.shaftPower,
-        st.loadFraction, st.motorEfficiency, st.driveEfficiency, st.electricalPower, st.energyKWh, st.status, st.message, stepWarnings(cycle, i).join("; "),
+        "duty_cycle", i + 1, ...(staged ? [pumpsRunningText(st)] : []), st.flowFraction, st.hours, st.flow, st.head, stepVerdict(st) || "met", st.speedRatio, st.efficiency, st.shaftPower,
+        ...(staged ? [st.pumpShaftPower] : []), st.loadFraction, st.motorEfficiency, st.driveEfficiency, st.electricalPower, st.energyKWh, st.status, st.message, stepWarnings(cycle, i).join("; "),
       ])),
     );
   }

@@ -101,6 +101,8 @@ const Result = obj({
 const Step = obj({
   flowFraction: num, hours: num, flow: num, head: numOrNull, speedRatio: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, loadFraction: nullishNum,
   motorEfficiency: numOrNull, driveEfficiency: numOrNull, electricalPower: numOrNull, energyKWh: numOrNull, status: str, message: str,
+  // Pumps in parallel staged by demand (engine dutyStaging.ts): absent in cycles frozen before, and in every other cycle.
+  pumpsRunning: v.optional(num), dutyPumps: v.optional(num), pumpShaftPower: v.optional(numOrNull),
 });
 const Energy = obj({
   control: str,
@@ -148,7 +150,7 @@ const LABELS: Record<string, string> = {
   result: "result", curve: "curve as used", operating: "operating point", figures: "figures at the operating point", band: "band", verdict: "verdict",
   reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
-  speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input",
+  speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input", pumpsRunning: "pumps running", pumpShaftPower: "one pump's shaft power",
   judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".

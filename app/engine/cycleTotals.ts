@@ -1,0 +1,32 @@
+/**
+ * A duty cycle's totals: which steps count, whether the cycle is complete, its energy per year. Steps whose energy is in
+ * the total: computed (`ok`, `throttled-at-min-on-curve-speed`) or no pumping needed (`gravity-flow`, 0 kWh); the others
+ * (not met, or not computed for want of power data) leave the cycle incomplete and their energy out of the total, said
+ * with their count (`cycle-incomplete`). Shared by dutyCycle.ts and dutyStaging.ts. Units: kWh per year.
+ */
+import type { EngineWarning } from "./errors.ts";
+import type { StepResult, StepStatus } from "./dutyCycle.ts";
+
+/** Steps whose energy is in the total (see the module comment); the others leave the cycle incomplete. */
+export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "throttled-at-min-on-curve-speed"];
+const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);
+
+/**
+ * Whether a cycle's steps with hours are all counted, and their energy per year; a `cycle-incomplete` warning pushed onto
+ * `warnings` when not.
+ * @param steps the cycle's steps (SI; kWh per year each)
+ * @param warnings the cycle's warnings (unitless), added to
+ */
+export function cycleTotals(steps: readonly StepResult[], warnings: EngineWarning[]): { complete: boolean; annualEnergyKWh: number } {
+  const complete = steps.every((s) => stepCounted(s) || s.hours === 0);
+  if (!complete) {
+    const missing = steps.filter((s) => !stepCounted(s) && s.hours > 0);
+    const notComputed = missing.filter((s) => s.status === "no-power-data").length;
+    const notMet = missing.length - notComputed;
+    const of = (n: number) => `${n} of ${steps.length} step${steps.length === 1 ? "" : "s"} with running hours`;
+    const parts = [notMet > 0 ? `${of(notMet)} not met by this pump or on this control curve` : "", notComputed > 0 ? `${of(notComputed)} not computed (the curve has no power data there)` : ""].filter(Boolean);
+    warnings.push({ code: "cycle-incomplete", message: `${parts.join("; ")}: their energy is missing from the total` });
+  }
+  const annualEnergyKWh = steps.reduce((sum, s) => sum + (s.energyKWh ?? 0), 0);
+  return { complete, annualEnergyKWh };
+}
