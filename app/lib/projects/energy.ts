@@ -28,6 +28,7 @@ import {
   type PumpCurve,
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
+import { stagedNpshWarnings } from "./staging-npsh";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -108,6 +109,10 @@ type InputLike = {
   tariffPerKWh: number;
   duty: { flow: number; head: number } | null;
   energy?: EnergySettings;
+  /** Suction (Pa absolute, m) and the wanted NPSHa / NPSHr: NPSH at a staged step with fewer pumps running (staging-npsh.ts); absent: not judged. */
+  suctionSurfacePressure?: number;
+  suctionStaticHead?: number;
+  npshMargin?: number;
 };
 
 /** The profile in use, with where it comes from. */
@@ -197,9 +202,10 @@ export function candidateEnergy(
     try {
       let curve = createPumpCurve({
         points: r.curve.map((p) => {
-          const o: { flow: number; head: number; efficiency?: number; power?: number } = { flow: p.flow, head: p.head };
+          const o: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number } = { flow: p.flow, head: p.head };
           if (p.efficiency != null) o.efficiency = p.efficiency;
           if (p.power != null) o.power = p.power;
+          if (p.npshr != null && p.npshr > 0) o.npshr = p.npshr; // staged steps' NPSH (staging-npsh.ts); no energy figure uses it
           return o;
         }),
         powerDensity: density,
@@ -223,7 +229,11 @@ export function candidateEnergy(
       // powers shared equally (combinePumps); in series every duty pump runs at every step.
       if (c.adjustment.arrangement === "parallel" && pumps > 1) {
         out.assumptions.push(`${PARALLEL_STAGING_RULE}.`);
-        out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: onePump(curve, pumps, density), dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
+        const one = onePump(curve, pumps, density);
+        out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: one, dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
+        // One pump alone at the larger share Q/k needs more NPSH: judged at each step with fewer pumps running.
+        if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null)
+          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin }));
       } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps } });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);

@@ -1,0 +1,72 @@
+// NPSH at the steps of a duty cycle where pumps in parallel staged by demand (engine dutyStaging.ts) run fewer than all
+// duty pumps. Each running pump then takes the share Q/k of the step's flow Q, further out on its curve than Q/N, where it
+// needs more NPSH; the suction still carries the step's whole flow Q. Judged by the rule the candidate's own NPSH is
+// judged by (engine figures.ts `npshStatus`, common practice): NPSHa / NPSHr at least the system's wanted margin ratio;
+// below 1, or NPSHa at or below zero whatever the pump, a cavitation risk. Pure. Units: SI (m³/s, m, Pa).
+import {
+  COUNTED_STEP_STATUSES,
+  npshAvailable,
+  npshrAt,
+  npshStatus,
+  suctionLoss,
+  type DutyCycleResult,
+  type EngineWarning,
+  type PreparedSystem,
+  type PumpCurve,
+} from "~/engine";
+import { fmtNumExact, fmtPct, qt, qtExact } from "~/engine/quantityText";
+
+/** The rule in words, with the wanted ratio (dimensionless), as each warning states it. */
+export const stagedNpshRule = (wanted: number): string =>
+  `common practice: NPSHa / NPSHr at least the wanted ${wanted}; below 1, or NPSHa at or below zero whatever the pump, a cavitation risk`;
+
+export type StagedNpshInput = {
+  cycle: Pick<DutyCycleResult, "mode" | "steps">;
+  /** ONE pump's curve at the speed the cycle's speed ratios are fractions of (the one the staged cycle ran on), with its NPSHr column where published. */
+  pumpCurve: PumpCurve;
+  /** The system the cycle runs on: its suction runs (loss at the step's flow, new pipe, as at the design point) and liquid. */
+  prepared: PreparedSystem;
+  /** Suction surface pressure, Pa absolute, and static suction head, m (as the candidate's NPSHa takes them, hydraulics.ts). */
+  suction: { surfacePressure: number; staticHead: number };
+  /** The system's wanted NPSHa / NPSHr (`npshMargin`, dimensionless). */
+  requiredMargin: number;
+};
+
+/**
+ * Warnings at each counted step where fewer than all duty pumps run (`parameter` "profile[i]", shown at the step): a low
+ * margin or a cavitation risk with NPSHa, NPSHr, their ratio and the rule; "not judged" where the curve has no NPSHr at
+ * one pump's share. Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
+ * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met.
+ */
+export function stagedNpshWarnings(input: StagedNpshInput): EngineWarning[] {
+  const out: EngineWarning[] = [];
+  const fluid = input.prepared.fluid;
+  const wanted = input.requiredMargin;
+  input.cycle.steps.forEach((s, i) => {
+    const k = s.pumpsRunning;
+    const n = s.dutyPumps;
+    if (k == null || n == null || !(k >= 1) || !(k < n) || !(COUNTED_STEP_STATUSES as readonly string[]).includes(s.status) || !(s.flow > 0)) return;
+    const share = s.flow / k;
+    const speed = input.cycle.mode === "fixed-speed" ? 1 : (s.speedRatio ?? 1);
+    const atFull = npshrAt(input.pumpCurve, share / speed);
+    const nr = atFull == null ? null : atFull * speed * speed;
+    const na = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure, density: fluid.density, staticSuctionHead: input.suction.staticHead, suctionLoss: suctionLoss(input.prepared, s.flow, "new").headLoss });
+    const where = `NPSH at ${Math.round(s.flowFraction * 100)} % flow, ${k} of ${n} pumps running: each takes ${qt("flow", share)} of the step's ${qt("flow", s.flow)}, further out on its curve than with all ${n} running (${qt("flow", s.flow / n)} each)`;
+    const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (new pipe)`;
+    const npshr = `NPSHr ${nr == null ? "" : qtExact("head", nr, [na])} of one pump at its share${speed !== 1 ? ` at ${fmtPct(speed)} speed (NPSHr ∝ N², affinity laws)` : ""}`;
+    if (!(na > 0)) {
+      out.push({ code: "staged-npsh", parameter: `profile[${i}]`, message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
+      return;
+    }
+    if (nr == null || !(nr > 0)) {
+      out.push({ code: "staged-npsh-not-judged", parameter: `profile[${i}]`, message: `${where}; not judged: the curve has no NPSHr at one pump's share (${npsha}; ${stagedNpshRule(wanted)})` });
+      return;
+    }
+    const ratio = na / nr;
+    const status = npshStatus(ratio, wanted);
+    if (status === "ok") return;
+    const verdict = status === "cavitation-risk" ? "below 1, NPSHa below NPSHr: cavitation risk" : `below the wanted ${wanted}: low NPSH margin`;
+    out.push({ code: "staged-npsh", parameter: `profile[${i}]`, message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
+  });
+  return out;
+}
