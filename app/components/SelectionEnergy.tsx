@@ -22,9 +22,10 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
       <p className="text-xs text-slate-600">
         Control: {e.controlLabel}. Profile: {e.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {e.profileLabel}.
       </p>
-      {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports. */}
+      {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports.
+          A staged cycle's energy is of the pumps running at each step, not of every duty pump together. */}
       <p className="hidden text-xs print:block" data-testid="energy-print">
-        {e.cycle ? `Energy per year${basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
+        {e.cycle ? `Energy per year${cycleStaged(e.cycle) ? ", the pumps running at each step," : basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
         {lcc ? ` (${lcc.source})` : ""}.
       </p>

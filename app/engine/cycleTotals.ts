@@ -16,15 +16,17 @@ const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES a
  * `warnings` when not.
  * @param steps the cycle's steps (SI; kWh per year each)
  * @param warnings the cycle's warnings (unitless), added to
+ * @param pumps the duty pumps the cycle is of (count, default 1): a step not met is "not met by this pump", or with
+ *   several "by the 2 pumps" (all of them running there: a staged cycle's not-met step runs all, dutyStaging.ts)
  */
-export function cycleTotals(steps: readonly StepResult[], warnings: EngineWarning[]): { complete: boolean; annualEnergyKWh: number } {
+export function cycleTotals(steps: readonly StepResult[], warnings: EngineWarning[], pumps = 1): { complete: boolean; annualEnergyKWh: number } {
   const complete = steps.every((s) => stepCounted(s) || s.hours === 0);
   if (!complete) {
     const missing = steps.filter((s) => !stepCounted(s) && s.hours > 0);
     const notComputed = missing.filter((s) => s.status === "no-power-data").length;
     const notMet = missing.length - notComputed;
     const of = (n: number) => `${n} of ${steps.length} step${steps.length === 1 ? "" : "s"} with running hours`;
-    const parts = [notMet > 0 ? `${of(notMet)} not met by this pump or on this control curve` : "", notComputed > 0 ? `${of(notComputed)} not computed (the curve has no power data there)` : ""].filter(Boolean);
+    const parts = [notMet > 0 ? `${of(notMet)} not met by ${pumps > 1 ? `the ${pumps} pumps` : "this pump"} or on this control curve` : "", notComputed > 0 ? `${of(notComputed)} not computed (the curve has no power data there)` : ""].filter(Boolean);
     warnings.push({ code: "cycle-incomplete", message: `${parts.join("; ")}: their energy is missing from the total` });
   }
   const annualEnergyKWh = steps.reduce((sum, s) => sum + (s.energyKWh ?? 0), 0);

@@ -105,6 +105,9 @@ describe("what a step needs beyond the flow", () => {
     expect(r.steps[0].status).toBe("beyond-curve");
     expect(r.complete).toBe(false);
     expect(r.warnings.find((w) => w.code === "cycle-incomplete")?.message).toBe(b.warnings.find((w) => w.code === "cycle-incomplete")?.message);
+    // Not met by the pair, not "by this pump" (both run there); the same pump alone says "this pump".
+    expect(r.warnings.find((w) => w.code === "cycle-incomplete")?.message).toContain("not met by the 2 pumps or on this control curve");
+    expect(alone("fixed-speed", [1.5]).warnings.find((w) => w.code === "cycle-incomplete")?.message).toContain("not met by this pump or on this control curve");
   });
 
   it("a step needing no pump head runs none: 0 of 2, 0 kWh", () => {

@@ -383,6 +383,6 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       message: throttled ?? (lowest ? `held at the lowest speed ${fmtPctLimit(n)}, throttled` : vfd ? `${fmtPct(n)} speed` : n === 1 ? "full speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`),
     };
   });
-  const { complete, annualEnergyKWh } = cycleTotals(steps, warnings);
+  const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, units);
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

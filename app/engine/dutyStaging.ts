@@ -69,7 +69,7 @@ export function stagedDutyCycleEnergy(input: StagedDutyCycleInput): DutyCycleRes
     const running = s.status === "gravity-flow" ? 0 : k;
     return { ...s, pumpsRunning: running, dutyPumps: n, pumpShaftPower: s.shaftPower == null ? null : running === 0 ? 0 : s.shaftPower / k };
   });
-  const { complete, annualEnergyKWh } = cycleTotals(steps, warnings);
+  const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, n);
   const first = runs[0];
   return { mode: first.mode, steps, totalHours: first.totalHours, annualEnergyKWh, complete, setpointHead: first.setpointHead, warnings };
 }

@@ -67,10 +67,11 @@ describe.each(["parallel", "series"] as const)("2 pumps in %s: every power figur
     expect(figureCell(pages.html, "Energy per year at the operating point × 4000 h/yr (electrical, every running hour there)")).toMatch(/ kWh for 2 duty pumps$/);
   });
 
-  test("the printed energy line says it is for the 2 duty pumps", () => {
+  test("the printed energy line says whose it is: the 2 duty pumps in series, the pumps running at each step in parallel (staged by demand)", () => {
     const printed = /data-testid="energy-print"[^>]*>([\s\S]*?)<\/p>/.exec(got[name].pages.html)?.[1];
     expect(printed).toBeTruthy();
-    expect(textOf(printed!)).toMatch(/^Energy per year, 2 duty pumps together, over \d+ steps, \d+ h\/yr: /);
+    const whose = name === "parallel" ? "the pumps running at each step" : "2 duty pumps together";
+    expect(textOf(printed!)).toMatch(new RegExp(`^Energy per year, ${whose}, over \\d+ steps, \\d+ h/yr: `));
   });
 
   test("the CSV: a basis column on the figures, per-pump rows beside the totals, and the curve, band and cycle powers named as totals", () => {
