@@ -1,8 +1,8 @@
 // NPSH at the steps of pumps in parallel staged by demand where fewer than all duty pumps run (staging-npsh.ts): one pump
 // alone takes the whole step flow Q (share Q/1, not Q/2) and needs more NPSH there. Judged by common practice: NPSHa /
 // NPSHr at least the system's wanted margin ratio (1.1 by default); below 1 a cavitation risk. Check values: NPSHa worked
-// out here by the engine's NPSHa formula with the suction's loss at the step's whole flow (new pipe, as at the design
-// point), NPSHr read off the pump's own published curve at one pump's share; the step where the margin crosses 1.1 is
+// out here by the engine's NPSHa formula with the suction's loss at the step's whole flow (aged pipe: the lower NPSHa, as at the band's demanding
+// corners), NPSHr read off the pump's own published curve at one pump's share; the step where the margin crosses 1.1 is
 // found by bisecting the step's flow. The curve and its NPSHr column are invented (the energy fixture's pump).
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, npshAvailable, npshrAt, prepareSystem, suctionLoss } from "~/engine";
@@ -24,7 +24,7 @@ const npshNotes = (inp: SystemInput, s = set()) => energyOf(inp, s).cycle!.warni
 /** NPSHa / NPSHr of one pump alone at the step flow q (m³/s), worked out here (see the header). */
 const handRatio = (inp: SystemInput, q: number) => {
   const f = fluidOf(inp);
-  const na = npshAvailable({ surfacePressure: inp.suctionSurfacePressure, vaporPressure: f.vaporPressure, density: f.density, staticSuctionHead: inp.suctionStaticHead, suctionLoss: suctionLoss(prepareSystem(systemSpec(inp)), q, "new").headLoss });
+  const na = npshAvailable({ surfacePressure: inp.suctionSurfacePressure, vaporPressure: f.vaporPressure, density: f.density, staticSuctionHead: inp.suctionStaticHead, suctionLoss: suctionLoss(prepareSystem(systemSpec(inp)), q, "aged").headLoss });
   return na / npshrAt(onePump, q)!;
 };
 
@@ -56,7 +56,7 @@ describe("2 pumps in parallel (+1 standby), fixed speed throttled: NPSH where 1 
     expect(handRatio(inp, 0.5 * 72 * M3H)).toBeLessThan(1); // control: the hand ratio is below 1 there
     const msg = npshNotes(inp)[0].message;
     expect(msg).toContain("below 1, NPSHa below NPSHr: cavitation risk");
-    expect(msg).toMatch(/NPSHa ⟦head\|[\d.]+.*⟧ at the step's whole flow through the suction \(new pipe\) \/ NPSHr ⟦head\|[\d.]+.*⟧ of one pump at its share = 0\.\d+,/);
+    expect(msg).toMatch(/NPSHa ⟦head\|[\d.]+.*⟧ at the step's whole flow through the suction \(aged pipe, the lower NPSHa\) \/ NPSHr ⟦head\|[\d.]+.*⟧ of one pump at its share = 0\.\d+,/);
   });
 
   it("all duty pumps running: not judged by the staging check (the candidate's own NPSH covers each pump at Q/N)", () => {

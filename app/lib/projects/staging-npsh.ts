@@ -24,7 +24,7 @@ export type StagedNpshInput = {
   cycle: Pick<DutyCycleResult, "mode" | "steps">;
   /** ONE pump's curve at the speed the cycle's speed ratios are fractions of (the one the staged cycle ran on), with its NPSHr column where published. */
   pumpCurve: PumpCurve;
-  /** The system the cycle runs on: its suction runs (loss at the step's flow, new pipe, as at the design point) and liquid. */
+  /** The system the cycle runs on: its suction runs (loss at the step's flow, aged pipe: the lower NPSHa, as the band's demanding corners) and liquid. */
   prepared: PreparedSystem;
   /** Suction surface pressure, Pa absolute, and static suction head, m (as the candidate's NPSHa takes them, hydraulics.ts). */
   suction: { surfacePressure: number; staticHead: number };
@@ -50,9 +50,9 @@ export function stagedNpshWarnings(input: StagedNpshInput): EngineWarning[] {
     const speed = input.cycle.mode === "fixed-speed" ? 1 : (s.speedRatio ?? 1);
     const atFull = npshrAt(input.pumpCurve, share / speed);
     const nr = atFull == null ? null : atFull * speed * speed;
-    const na = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure, density: fluid.density, staticSuctionHead: input.suction.staticHead, suctionLoss: suctionLoss(input.prepared, s.flow, "new").headLoss });
+    const na = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure, density: fluid.density, staticSuctionHead: input.suction.staticHead, suctionLoss: suctionLoss(input.prepared, s.flow, "aged").headLoss });
     const where = `NPSH at ${Math.round(s.flowFraction * 100)} % flow, ${k} of ${n} pumps running: each takes ${qt("flow", share)} of the step's ${qt("flow", s.flow)}, further out on its curve than with all ${n} running (${qt("flow", s.flow / n)} each)`;
-    const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (new pipe)`;
+    const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
     const npshr = `NPSHr ${nr == null ? "" : qtExact("head", nr, [na])} of one pump at its share${speed !== 1 ? ` at ${fmtPct(speed)} speed (NPSHr ∝ N², affinity laws)` : ""}`;
     if (!(na > 0)) {
       out.push({ code: "staged-npsh", parameter: `profile[${i}]`, message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
