@@ -5,7 +5,7 @@ import type { PumpSeries } from "./chart/types";
 import { crossingOf, interpolateAt } from "./chart/scales";
 import { TOLERANCE_GRADES } from "~/engine";
 import { fmtPctLimit, fmtPctSide } from "~/engine/quantityText";
-import { VERDICT_TEXT, type CheckResult, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
+import { measuredRpmText, VERDICT_TEXT, type CheckResult, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
 export function FieldCaution() {
@@ -116,7 +116,9 @@ export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; un
     { id: "selected", label: c.selectedLabel, colorIndex: 1, head: c.selected, efficiency: c.selectedEff.length >= 2 ? c.selectedEff : undefined, adjusted: true, operating: onSystem(c.selected, c.selectedEff) },
     {
       id: "measured",
-      label: c.measuredLabel,
+      // The measured speed apart from the translation range's ends, as the Speed row and the warning (a check stored
+      // before this read "At the measured 1450 rpm" for 1449.7 rpm of a 2900 rpm curve).
+      label: r.speed.rescaled && r.speed.measured !== null ? `At the measured ${measuredRpmText(r.speed.measured, r.speed.rated)} rpm` : c.measuredLabel,
       colorIndex: 0,
       head: c.measured,
       efficiency: c.measuredEff.length >= 2 ? c.measuredEff : undefined,

@@ -254,34 +254,56 @@ function edgeMessage(c: PumpCurve, duty: { qd: number; hd: number }, edge: Curve
     : `the duty flow ${qt("flow", duty.qd)} leaves the curve's first point (${qt("flow", c.flowMin)} as published) at ${at}, where the pump gives ${gives}, less than the duty's ${needs}; above that the flow lies before the curve's first point, where the curve gives no data`;
 }
 
+/** How a solve names its ratio limits in {@link limitMessage}: the speed solve's allowed speeds, the trim solve's diameters searched. */
+interface LimitWords {
+  /** The highest ratio, before its value: "the highest allowed speed", "the full diameter". */
+  highest: string;
+  /** The highest in the flow-range sentence ("at the highest, 100 %"). */
+  highestShort: string;
+  /** What a duty below the lowest ratio needs: "a speed below the lowest allowed", "a diameter below the smallest searched". */
+  below: string;
+  /** The lowest in the flow-range sentence ("at the lowest, 30 %"). */
+  lowestShort: string;
+  /** Each ratio in the limits, after "every" and "any": "allowed speed", "diameter searched". */
+  each: string;
+  /** Said after a duty head above the curve at the highest ratio ("" or "; trimming cannot help"). */
+  aboveTail: string;
+}
+
+const SPEED_WORDS: LimitWords = { highest: "the highest allowed speed", highestShort: "the highest", below: "a speed below the lowest allowed",
+  lowestShort: "the lowest", each: "allowed speed", aboveTail: "" };
+const TRIM_WORDS: LimitWords = { highest: "the full diameter", highestShort: "the full diameter", below: "a diameter below the smallest searched",
+  lowestShort: "the smallest searched", each: "diameter searched", aboveTail: "; trimming cannot help" };
+
 /**
- * Why no speed within the limits meets the duty where the speed limit bounds it (or the flow is off the curve at every
- * allowed speed): the duty, the pump's head at the duty flow at the limit that binds (or the curve's flow range there) and
- * the limit, each head or flow kept apart from the duty's (qtPair), the limit as given (fmtPctLimit).
+ * Why no ratio within the limits meets the duty where a ratio limit bounds it (or the flow is off the curve at every
+ * ratio in them): the duty, the pump's head at the duty flow at the limit that binds (or the curve's flow range there) and
+ * the limit, each head or flow kept apart from the duty's (qtPair), the limit as given (fmtPctLimit). The curve at ratio s
+ * has Q ∝ s^k (k = 1: speed or linear trim; 2: square trim) and H ∝ s².
  */
-function speedLimitMessage(c: PumpCurve, duty: { qd: number; hd: number }, status: NoRatio, lo: number, hi: number): string {
+function limitMessage(c: PumpCurve, duty: { qd: number; hd: number }, status: NoRatio, k: number, lo: number, hi: number, words: LimitWords): string {
   const flow = qt("flow", duty.qd);
-  const headAtSpeed = (s: number) => {
-    const h = evalAtEnds(c.head, duty.qd / s);
+  const headAtRatio = (s: number) => {
+    const h = evalAtEnds(c.head, duty.qd / Math.pow(s, k));
     return h === null ? null : s * s * h;
   };
   if (status === "duty-above-curve" || status === "duty-below-limit") {
     const above = status === "duty-above-curve";
-    const h = headAtSpeed(above ? hi : lo);
+    const h = headAtRatio(above ? hi : lo);
     if (h !== null) {
       const [gives, needs] = qtPair("head", h, duty.hd);
       return above
-        ? `the duty head ${needs} at ${flow} is above the curve even at the highest allowed speed, ${fmtPctLimit(hi)}: there the pump gives ${gives} at this flow`
-        : `the duty head ${needs} at ${flow} needs a speed below the lowest allowed, ${fmtPctLimit(lo)}: there the pump gives ${gives} at this flow, more than the duty's`;
+        ? `the duty head ${needs} at ${flow} is above the curve even at ${words.highest}, ${fmtPctLimit(hi)}: there the pump gives ${gives} at this flow${words.aboveTail}`
+        : `the duty head ${needs} at ${flow} needs ${words.below}, ${fmtPctLimit(lo)}: there the pump gives ${gives} at this flow, more than the duty's`;
     }
-  } else if (duty.qd / c.flowMax > hi) {
-    const [q, end] = qtPair("flow", duty.qd, c.flowMax * hi);
-    return `the duty flow ${q} lies past the curve's end at every allowed speed: at the highest, ${fmtPctLimit(hi)}, the curve spans ${qt("flow", c.flowMin * hi)}–${end}${hi === 1 ? "" : ` (${qt("flow", c.flowMax)} as published at 100 %)`}`;
-  } else if (c.flowMin > 0 && duty.qd / c.flowMin < lo) {
-    const [q, start] = qtPair("flow", duty.qd, c.flowMin * lo);
-    return `the duty flow ${q} lies before the curve's first point at every allowed speed: at the lowest, ${fmtPctLimit(lo)}, the curve spans ${start}–${qt("flow", c.flowMax * lo)}${lo === 1 ? "" : ` (${qt("flow", c.flowMin)} as published at 100 %)`}`;
+  } else if (duty.qd / c.flowMax > Math.pow(hi, k)) {
+    const [q, end] = qtPair("flow", duty.qd, c.flowMax * Math.pow(hi, k));
+    return `the duty flow ${q} lies past the curve's end at every ${words.each}: at ${words.highestShort}, ${fmtPctLimit(hi)}, the curve spans ${qt("flow", c.flowMin * Math.pow(hi, k))}–${end}${hi === 1 ? "" : ` (${qt("flow", c.flowMax)} as published at 100 %)`}`;
+  } else if (c.flowMin > 0 && duty.qd / c.flowMin < Math.pow(lo, k)) {
+    const [q, start] = qtPair("flow", duty.qd, c.flowMin * Math.pow(lo, k));
+    return `the duty flow ${q} lies before the curve's first point at every ${words.each}: at ${words.lowestShort}, ${fmtPctLimit(lo)}, the curve spans ${start}–${qt("flow", c.flowMax * Math.pow(lo, k))}${lo === 1 ? "" : ` (${qt("flow", c.flowMin)} as published at 100 %)`}`;
   }
-  return `the duty ${flow} at ${qt("head", duty.hd)} is not met at any allowed speed, ${fmtPctLimit(lo)}–${fmtPctLimit(hi)}`;
+  return `the duty ${flow} at ${qt("head", duty.hd)} is not met at any ${words.each}, ${fmtPctLimit(lo)}–${fmtPctLimit(hi)}`;
 }
 
 /**
@@ -300,7 +322,7 @@ export function speedForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: nu
   if (lo > hi) throw new EngineInputError("limits.min", "must not exceed limits.max");
   const r = solveRatio(c, qd, hd, 1, lo, hi);
   if (r.status !== "ok") {
-    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `${fmtPct(s)} speed`) : speedLimitMessage(c, { qd, hd }, r.status, lo, hi), r.status === "outside-curve" ? r.edge : null);
+    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `${fmtPct(s)} speed`) : limitMessage(c, { qd, hd }, r.status, 1, lo, hi, SPEED_WORDS), r.status === "outside-curve" ? r.edge : null);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / r.ratio) : null;
   const warnings = scaleWarningsSpeed(r.ratio);
@@ -336,11 +358,7 @@ export function trimForDuty(curve: PumpCurve | PumpCurveInput, duty: { flow: num
   const lo = requirePositive("options.minRatio", options.minRatio ?? 0.5);
   const r = solveRatio(c, qd, hd, k, Math.min(lo, 1), 1);
   if (r.status !== "ok") {
-    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `a diameter ratio of ${fmtPct(s)}`) : {
-      "duty-above-curve": "duty head is above the full-diameter curve: trimming cannot help",
-      "outside-curve": "duty flow falls outside the curve at every trim",
-      "duty-below-limit": "duty needs a trim beyond the searched range",
-    }[r.status], r.status === "outside-curve" ? r.edge : null);
+    return noRatio(r.status, r.status === "outside-curve" && r.edge ? edgeMessage(c, { qd, hd }, r.edge, (s) => `a diameter ratio of ${fmtPct(s)}`) : limitMessage(c, { qd, hd }, r.status, k, Math.min(lo, 1), 1, TRIM_WORDS), r.status === "outside-curve" ? r.edge : null);
   }
   const e = c.efficiency ? evalAtEnds(c.efficiency, qd / Math.pow(r.ratio, k)) : null;
   return requireFiniteResult("duty", { status: "ok", ratio: r.ratio, speed: c.speed, diameter: c.impellerDiameter !== null ? c.impellerDiameter * r.ratio : null,

@@ -4,7 +4,8 @@
 // 10 m³/h), service factors 1.0–1.5 (common practice), the product rule (motor.ts limitCovers).
 import { describe, expect, it } from "vitest";
 import { dutyCycleEnergy, type DutyCycleInput } from "./index.ts";
-import { inSI } from "./quantityText.ts";
+import { inSI, renderQuantities } from "./quantityText.ts";
+import { UNIT_SYSTEMS } from "./units.ts";
 import { knotCycle } from "./test/curves.ts";
 
 const base: DutyCycleInput = knotCycle(); // through the design knot: 600 W at 10 m³/h
@@ -21,6 +22,15 @@ describe("a step above the motor's rating × service factor", () => {
     expect(overloads({ rating: 522, efficiency: 0.8, serviceFactor: 1.15 })).toEqual([]);
     const w = overloads({ rating: 521, efficiency: 0.8, serviceFactor: 1.15 });
     expect(inSI(w[0].message)).toMatch(/^at 100 % flow the motor runs at 115\.2 % load, above its rating × service factor 115 %: the shaft power 0\.600 kW exceeds 0\.599 kW, so the motor overloads at this step/);
+  });
+  it("service factor 1.155 (a limit as given, '115.5 %'): a load of 115.8 % reads above it, not '115.8 %' beside '116 %' (US too)", () => {
+    // 600 W / 1.158 = 518.13 W rated: load 115.8 %, limit 518.13 W × 1.155 = 598.4 W < 600 W (hand arithmetic).
+    const w = overloads({ rating: 600 / 1.158, efficiency: 0.8, serviceFactor: 1.155 });
+    for (const t of [inSI(w[0].message), renderQuantities(w[0].message, UNIT_SYSTEMS.US)])
+      expect(t).toMatch(/^at 100 % flow the motor runs at 115\.8 % load, above its rating × service factor 115\.5 %: the shaft power /);
+    // A load just above the limit, 115.52 %: shown to the limit's decimal at the least, and apart from it.
+    const near = overloads({ rating: 600 / 1.1552, efficiency: 0.8, serviceFactor: 1.155 });
+    expect(inSI(near[0].message)).toMatch(/^at 100 % flow the motor runs at 115\.52 % load, above its rating × service factor 115\.5 %:/);
   });
 });
 

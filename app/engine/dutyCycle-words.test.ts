@@ -59,3 +59,15 @@ describe("two duty pumps: their curve is theirs together", () => {
     expect(inSI(s.message)).toContain("as published at full speed); the 2 pumps together give 9.72 m, the system needs 0.500 m:");
   });
 });
+
+describe("a candidate set above its curve's speed: the drive's highest speed is a limit, read as given", () => {
+  it("set at 115.5 %: a step the pump cannot reach names 115.5 %, not '116 %' (it read fmtPct(1.155, 0)), in SI and US", () => {
+    // 12 m³/h on the loop needs 18 × 1.2² = 25.92 m; at 115.5 % the curve gives 1.155² × H(12 / 1.155) ≈ 23.8 m (hand algebra).
+    const s = cycle({ maxSpeedRatio: 1.155 }, 1.2).steps[0];
+    expect(s.status).toBe("beyond-curve");
+    for (const t of [inSI(s.message), US(s.message)]) {
+      expect(t).toMatch(/^at (?:12\.0 m³\/h|52\.8 gpm) the pump gives \d+\.\d+ (?:m|ft) at 115\.5 % speed \(the candidate's set speed\), /);
+      expect(t).toContain(": no speed up to 115.5 % meets this step (the drive does not run the pump above the candidate's set speed)");
+    }
+  });
+});

@@ -211,8 +211,8 @@ export interface DutyCycleInput {
 function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string, pumpGives: string): string | null {
   // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
   const set = maxSpeed > 1;
-  const top = set ? `${fmtPct(maxSpeed, 0)} speed (the candidate's set speed)` : "full speed (100 %)";
-  const upTo = `no speed up to ${fmtPct(maxSpeed, 0)}`;
+  const top = set ? `${fmtPctLimit(maxSpeed)} speed (the candidate's set speed)` : "full speed (100 %)"; // a limit, as given
+  const upTo = `no speed up to ${fmtPctLimit(maxSpeed)}`;
   const noOverspeed = `(the drive does not run the pump above ${set ? "the candidate's set speed" : "its full speed"})`;
   if (q > curve.flowMax * maxSpeed) {
     const [flow, end] = qtPair("flow", q, curve.flowMax * maxSpeed);
@@ -372,8 +372,10 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
+    // The service factor is a limit, as given (fmtPctLimit: 1.155 → "115.5 %"); the load to its decimals at the least, apart from it.
+    const sfText = fmtPctLimit(sf), sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
     if (!limitCovers(motorLimit(rating, sf), shaft))
-      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], 0)} load, above its rating × service factor ${fmtPct(sf, 0)}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
+      warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], sfDecimals)} load, above its rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));

@@ -35,9 +35,11 @@ beforeAll(async () => {
   }
 });
 
-async function speedRows(id: number): Promise<{ rows: string[]; html: string }> {
+/** `stored`: changes the loaded record first (a check stored before a change of its texts). */
+async function speedRows(id: number, stored?: (body: { result: { chart: { measuredLabel: string } } }) => void): Promise<{ rows: string[]; html: string }> {
   const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
   expect(r.status).toBe(200);
+  stored?.(r.body as never);
   const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
   const html = renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
   return { rows: [...html.matchAll(/<dt class="text-slate-600">Speed<\/dt><dd>(.*?)<\/dd>/g)].map((x) => x[1]), html };
@@ -57,4 +59,24 @@ test("3480.3 rpm, above 120 % of 2900 rpm (3480 rpm): read apart from it", async
 test("a speed well inside the range reads as it always did, to the whole rpm", async () => {
   const { rows } = await speedRows(ids["2000"]);
   expect(rows).toEqual(["2000 rpm measured · 2900 rpm selected · curve at 2900 rpm", "2000 rpm"]);
+});
+
+// The hint on the speed and the chart's curve at the measured speed (its legend and table caption, "2. At the measured …")
+// read it as the Speed row does: they printed "(1450 rpm against 2900 rpm)" and "At the measured 1450 rpm" for 1449.7 rpm.
+test("1449.7 rpm: the speed hint and the chart's measured curve read 1449.7 rpm, as the warning beside", async () => {
+  const { html } = await speedRows(ids["1449.7"]);
+  expect(html).toContain("The measured speed differs from the selection's speed (1449.7 rpm against 2900 rpm)");
+  expect(html).toContain("2. At the measured 1449.7 rpm");
+  expect(html).not.toMatch(/\b1450 rpm/);
+});
+
+test("a check stored with the old label ('At the measured 1450 rpm') reads 1449.7 rpm on its chart too", async () => {
+  const { html } = await speedRows(ids["1449.7"], (b) => (b.result.chart.measuredLabel = "At the measured 1450 rpm"));
+  expect(html).toContain("At the measured 1449.7 rpm");
+  expect(html).not.toContain("At the measured 1450 rpm");
+});
+
+test("3480.3 rpm (above 120 % of 2900 rpm, 3480 rpm) and 2000 rpm (inside, to the whole rpm) on the chart", async () => {
+  expect((await speedRows(ids["3480.3"])).html).toContain("At the measured 3480.3 rpm");
+  expect((await speedRows(ids["2000"])).html).toContain("At the measured 2000 rpm");
 });

@@ -32,6 +32,18 @@ import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
 export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
 
+/**
+ * A measured speed in rpm (number only) with the decimals that keep it apart from the ends of the range the curve may be
+ * translated in (the no-verdict warning's numbers) and from `others`: 1449.7 rpm of a 2900 rpm curve reads "1449.7", not
+ * "1450" (50 %, inside); a speed well inside reads to the whole rpm.
+ * @param measured the measured speed, rpm
+ * @param rated the curve's speed, rpm (null: no range)
+ * @param others other speeds printed beside it, rpm
+ */
+export function measuredRpmText(measured: number, rated: number | null, others: readonly (number | null)[] = []): string {
+  return fmtNumExact(measured, [...(rated !== null ? SPEED_RANGE.map((f) => f * rated) : []), ...others], 0);
+}
+
 export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
 
 /**
@@ -110,7 +122,7 @@ function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; sp
   if (offDuty && dutyFlow! > 0 && (dutyHead ?? 0) < 0)
     hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
   if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
-    hints.push(`The measured speed differs from the selection's speed (${fmtNumExact(r.speed.measured, [r.speed.design], 0)} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
+    hints.push(`The measured speed differs from the selection's speed (${measuredRpmText(r.speed.measured, r.speed.rated, [r.speed.design])} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
   // A head on the curve within the rounding the tolerance cross allows (1e-12, the engine's gradeCross) is neither below nor above it.
   // (Not where the head is at or below zero: the readings are misread, not the pump worn.)
   if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE && r.delivered.head > 0)
@@ -279,7 +291,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
       flowMax,
       band: engine.flowBand ? { low: engine.flowBand.low, high: engine.flowBand.high } : null,
       selectedLabel: `As selected${design !== null ? ` (${Math.round(design)} rpm${selectedCorrected ? `, corrected for ${f.system.input.fluid.kind === "custom" ? f.system.input.fluid.name || "the custom liquid" : "the liquid"}` : ""})` : ""}`,
-      measuredLabel: rescaled ? `At the measured ${Math.round(measured!)} rpm` : "Curve compared",
+      measuredLabel: rescaled ? `At the measured ${measuredRpmText(measured!, rated)} rpm` : "Curve compared",
     },
   };
   result.hints = hintsFor(result);

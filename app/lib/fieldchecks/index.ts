@@ -2,7 +2,7 @@
 // the form codec, the pure evaluation, the stored result's type, the tolerance cross and the CSV.
 // The database side is imported by name where it is used (records.server.ts, photos.server.ts):
 // a `.server` module re-exported here would pull server code into the browser bundle.
-export { evaluateCheck, verdictFor, gradeById, deliveredSentence, FIELD_CHECK_FORMAT, SPEED_RANGE, type FrozenSelection } from "./evaluate";
+export { evaluateCheck, verdictFor, gradeById, deliveredSentence, FIELD_CHECK_FORMAT, SPEED_RANGE, measuredRpmText, type FrozenSelection } from "./evaluate";
 export {
   blankFields,
   DEFAULT_GRADE,

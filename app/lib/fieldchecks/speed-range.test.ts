@@ -47,3 +47,17 @@ describe("the measured speed's distance from the curve's", () => {
     expect(under.warnings.join(" ")).not.toMatch(/pump's efficiency comes out/);
   });
 });
+
+describe("the measured speed beside the range's ends, in the hint and the chart's label", () => {
+  test("1449.7 rpm (49.99 % of 2900 rpm): the hint and the label read 1449.7 rpm, as the warning, never 1450 rpm (50 %, inside)", () => {
+    const r = atSpeed(1449.7);
+    expect(r.warnings.join(" ")).toContain("the measured speed (1449.7 rpm) is 49.99 % of the curve's 2900 rpm");
+    expect(r.hints).toContain("The measured speed differs from the selection's speed (1449.7 rpm against 2900 rpm): check the drive's set point and limits, the motor's poles and the nameplate.");
+    expect(r.chart.measuredLabel).toBe("At the measured 1449.7 rpm");
+  });
+  test("1500.4 rpm, well inside: to the whole rpm, as before", () => {
+    const r = atSpeed(1500.4);
+    expect(r.hints.join(" ")).toContain("(1500 rpm against 2900 rpm)");
+    expect(r.chart.measuredLabel).toBe("At the measured 1500 rpm");
+  });
+});
