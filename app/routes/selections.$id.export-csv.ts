@@ -11,7 +11,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const m = await requireMember(request, "project.read");
   try {
     const s = await getSelection(viewerOf(m), readId(params.id));
-    return new Response(selectionCsv(s.id, renderUnits(s.title, SI_UNITS), renderDeep(s.frozen, SI_UNITS)), {
+    return new Response(selectionCsv(s.id, renderUnits(s.title, SI_UNITS), renderDeep(s.frozen, SI_UNITS), renderUnits(s.note, SI_UNITS)), {
       headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-selection-${s.id}.csv"` },
     });
   } catch (e) {

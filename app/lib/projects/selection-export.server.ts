@@ -9,6 +9,7 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
 import { inSI } from "~/engine/quantityText";
+import { DEFAULT_FLOW_TOLERANCE } from "~/engine";
 
 const row = (xs: unknown[]) => xs;
 
@@ -62,10 +63,13 @@ const ratioCell = (ratio: number | null | undefined, available: number | null | 
  * Pumps in parallel or series: a comment line says so, the curve, band and cycle power columns are named as the duty pumps'
  * together (`shaft_power_all_duty_pumps_w`), and the figures get a basis column (per pump, or the duty pumps together) with
  * one pump's shaft power and electrical input beside the totals (power-basis.ts). A single pump's layout is as it was.
+ * The engineer's note is a comment line under the title; the system inputs it was judged on close the file (`inputs`).
  */
-export function selectionCsv(id: number, title: string, f: FrozenSelection): string {
+export function selectionCsv(id: number, title: string, f: FrozenSelection, note = ""): string {
   const lines: unknown[][] = [];
   lines.push(row(["# Dutymark selection export", `DM-${String(id).padStart(5, "0")}`, title]));
+  // The engineer's note, on one line (its line breaks as " / "), as the report shows it under the title.
+  if (note.trim()) lines.push(row([`# Note: ${note.trim().replace(/\s*\n\s*/g, " / ")}`]));
   lines.push(row([`# ${SELECTION_CAUTION}`]));
   const traced = f.pump.library.traced;
   if (traced) lines.push(row([`# Curve data ${traced.source}: ${traced.caution}`]));
@@ -152,7 +156,40 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection): str
   add("curve_data_source", traced ? `${traced.source}. ${traced.caution}` : traced === null ? "as imported (not traced)" : "not recorded (selected before traced curve data was marked)", "");
   for (const [name, value, unit] of cautionFigures(f)) add(name, value, unit);
   energyFigures(f, add);
+  // The system inputs the selection was judged on, as the report's "System inputs" (the CSV carried none of them).
+  lines.push([]);
+  lines.push(row(["section", "input", "value", "unit"]));
+  for (const [name, value, unit] of inputRows(f)) lines.push(row(["inputs", name, value, unit]));
   return toCsv(lines, { precision: 10 });
+}
+
+/** The system inputs of a frozen selection (SI), one row each: duty and its tolerance, levels, liquid, suction, operation. */
+function inputRows(f: FrozenSelection): [string, unknown, string][] {
+  const i = f.system?.input; // always there in a stored selection; a hand-made partial one (tests) has none
+  if (!i) return [];
+  const fluid = f.systemCurve?.fluid;
+  const tol = i.flowTolerance ?? DEFAULT_FLOW_TOLERANCE;
+  return [
+    ["duty_flow", i.duty?.flow ?? null, "m3/s"],
+    ["duty_head", i.duty?.head ?? null, "m"],
+    ["duty_flow_tolerance_minus", tol.minus, "1"],
+    ["duty_flow_tolerance_plus", tol.plus, "1"],
+    ["system_kind", i.mode, ""],
+    ["static_head_low", i.staticLow, "m"],
+    ["static_head_high", i.staticHigh, "m"],
+    ["pressure_difference", i.pressureDifference, "Pa"],
+    ["control_head", i.mode === "closed-loop" ? i.controlHead : null, "m"],
+    ["liquid", i.fluid.kind === "custom" ? i.fluid.name || "custom liquid" : "water", ""],
+    ["temperature", i.temperatureC, "degC"],
+    ["density", fluid?.density ?? null, "kg/m3"],
+    ["kinematic_viscosity", fluid?.kinematicViscosity ?? null, "m2/s"],
+    ["suction_surface_pressure_abs", i.suctionSurfacePressure, "Pa"],
+    ["suction_static_head", i.suctionStaticHead, "m"],
+    ["npsh_margin_wanted", i.npshMargin, "1"],
+    ["hours_per_year", i.hoursPerYear, "h/yr"],
+    ["tariff_per_kwh", i.tariffPerKWh, `${currencyOf(f)}/kWh`],
+    ["pipe_runs", i.runs.length, "count"],
+  ];
 }
 
 /**
