@@ -59,7 +59,14 @@ async function stopNode(node, { kill = false } = {}) {
   if (pidAlive(node.pid)) process.kill(node.pid, "SIGKILL");
 }
 
-async function startNode(node, { bootstrap, clusterAddress, recover = false }) {
+/** A port taken between freePort() and the server's bind (another process on the machine): the log says so. */
+const PORT_TAKEN = /Can't start server: Bind on TCP\/IP port|Address already in use/;
+
+async function startNode(node, { bootstrap, clusterAddress, recover = false }, attempt = 1) {
+  let logBefore = 0;
+  try {
+    logBefore = readFileSync(node.logFile, "utf8").length;
+  } catch {}
   initDataDir(node.dir, node.name);
   const args = [
     ...serverArgs({ ...node, bufferPool: "128M" }),
@@ -108,10 +115,20 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false }) {
     if (child.exitCode !== null) break;
     await sleep(100);
   }
-  let tail = "";
+  let log_ = "";
   try {
-    tail = readFileSync(node.logFile, "utf8").split("\n").slice(-25).join("\n");
+    log_ = readFileSync(node.logFile, "utf8");
   } catch {}
+  // Its own ports were free when chosen but another process took one before the node bound it: new ports, once or
+  // twice (the node's client, IST and SST ports are its own; its group port is in every node's cluster address).
+  if (attempt < 3 && PORT_TAKEN.test(log_.slice(logBefore))) {
+    if (pidAlive(node.pid)) process.kill(node.pid, "SIGKILL");
+    for (let k = 0; k < 50 && pidAlive(node.pid); k++) await sleep(100);
+    Object.assign(node, { port: await freePort(), istPort: await freePort(), sstPort: await freePort() });
+    log(`${node.name}: a port was taken before it could bind (another process); starting again on 127.0.0.1:${node.port}`);
+    return startNode(node, { bootstrap, clusterAddress, recover }, attempt + 1);
+  }
+  const tail = log_.split("\n").slice(-25).join("\n");
   throw new Error(`${node.name} did not join the cluster. Last lines of its log:\n${tail}`);
 }
 
