@@ -164,20 +164,26 @@ export async function startGaleraCluster(size = 3) {
   // one-node cluster and stops cleanly, its data directory is copied to the others, so each joins
   // at the same position (Galera then transfers nothing, or the little that changed, by IST).
   const first = nodes[0];
-  await startNode(first, { bootstrap: true, clusterAddress });
-  await stopNode(first);
-  for (const node of nodes.slice(1)) {
-    rmSync(node.dir, { recursive: true, force: true });
-    cpSync(first.dir, node.dir, { recursive: true });
-    rmSync(path.join(node.dir, "gvwstate.dat"), { force: true });
-  }
-  rmSync(path.join(first.dir, "gvwstate.dat"), { force: true });
-  for (const [i, node] of nodes.entries()) {
-    const t0 = Date.now();
-    await startNode(node, { bootstrap: i === 0, clusterAddress });
-    log(`${node.name} synced on 127.0.0.1:${node.port} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
-    node.stop = (opts) => stopNode(node, opts);
-    node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true });
+  try {
+    await startNode(first, { bootstrap: true, clusterAddress });
+    await stopNode(first);
+    for (const node of nodes.slice(1)) {
+      rmSync(node.dir, { recursive: true, force: true });
+      cpSync(first.dir, node.dir, { recursive: true });
+      rmSync(path.join(node.dir, "gvwstate.dat"), { force: true });
+    }
+    rmSync(path.join(first.dir, "gvwstate.dat"), { force: true });
+    for (const [i, node] of nodes.entries()) {
+      const t0 = Date.now();
+      await startNode(node, { bootstrap: i === 0, clusterAddress });
+      log(`${node.name} synced on 127.0.0.1:${node.port} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+      node.stop = (opts) => stopNode(node, opts);
+      node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true });
+    }
+  } catch (e) {
+    // A node that did not join: the nodes already running are stopped, not left behind (they outlived a failed run).
+    for (const n of [...nodes].reverse()) if (n.pid && pidAlive(n.pid)) process.kill(n.pid, "SIGKILL");
+    throw e;
   }
   const size_ = wsrepStatus(nodes[0].socket, "wsrep_cluster_size");
   if (Number(size_) !== size) throw new Error(`the cluster has ${size_} nodes, expected ${size}`);
