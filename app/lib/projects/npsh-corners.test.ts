@@ -116,10 +116,11 @@ describe("NPSHa at or below zero: a cavitation risk whatever the pump, NPSHr kno
 });
 
 describe("the selection export carries the corners and the status", () => {
+  /** A frozen selection of `input` as far as the CSV reads it (the rest of a stored one left out). */
+  const frozenOf = (input: SystemInput) =>
+    ({ result: evaluate(input), system: { input }, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null }) as unknown as FrozenSelection;
   it("npsh section rows for the design point and each corner; the status over the band and where", () => {
-    const result = evaluate(system(3e-3));
-    const frozen = { result, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null } as unknown as FrozenSelection;
-    const csv = selectionCsv(1, "t", frozen);
+    const csv = selectionCsv(1, "t", frozenOf(system(3e-3)));
     expect(csv).toContain("section,at,flow_m3s,npsha_m,npshr_m,npsh_margin_ratio");
     for (const c of ["design point", ...npshCorners("open").map((x) => x.name)]) expect(csv).toMatch(new RegExp(`^npsh,"?${c}"?,`, "m"));
     expect(csv).toMatch(/^figures,npsh_status_over_band,cavitation-risk,/m);
@@ -127,9 +128,7 @@ describe("the selection export carries the corners and the status", () => {
   });
 
   it("NPSHa ≤ 0 (a 11 m suction lift, NPSHr 2.5 m): the band, npsh and figure ratios are blank with NPSHa beside them, never a negative ratio", () => {
-    const result = evaluate({ ...defaultSystemInput(), suctionStaticHead: -11 });
-    const frozen = { result, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null } as unknown as FrozenSelection;
-    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozen).trim()).data;
+    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozenOf({ ...defaultSystemInput(), suctionStaticHead: -11 })).trim()).data;
     const section = (name: string) => {
       const header = rows.find((r) => r[0] === "section" && rows[rows.indexOf(r) + 1]?.[0] === name)!;
       return rows.filter((r) => r[0] === name).map((r) => Object.fromEntries(header.map((h, i) => [h, r[i]])));
@@ -148,9 +147,7 @@ describe("the selection export carries the corners and the status", () => {
   });
 
   it("the flip: flooded 0.4 m, NPSHa above zero everywhere: the ratios are written", () => {
-    const result = evaluate(system(3e-3));
-    const frozen = { result, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M" }, energy: null } as unknown as FrozenSelection;
-    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozen).trim()).data.filter((r) => r[0] === "npsh");
+    const rows = Papa.parse<string[]>(selectionCsv(1, "t", frozenOf(system(3e-3))).trim()).data.filter((r) => r[0] === "npsh");
     for (const r of rows) { expect(Number(r[3])).toBeGreaterThan(0); expect(Number(r[5])).toBeCloseTo(Number(r[3]) / Number(r[4]), 9); } // the ratio's definition
   });
 });

@@ -165,8 +165,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
 
 /** The system inputs of a frozen selection (SI), one row each: duty and its tolerance, levels, liquid, suction, operation. */
 function inputRows(f: FrozenSelection): [string, unknown, string][] {
-  const i = f.system?.input; // always there in a stored selection; a hand-made partial one (tests) has none
-  if (!i) return [];
+  const i = f.system.input;
   const fluid = f.systemCurve?.fluid;
   const tol = i.flowTolerance ?? DEFAULT_FLOW_TOLERANCE;
   return [

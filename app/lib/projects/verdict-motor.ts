@@ -7,6 +7,7 @@
 // keeps it within that over every flow the pump can run at (the check's own words say where it does not).
 import { qtExact, qtLimit } from "~/engine/quantityText";
 import { limitCovers } from "~/engine/motor";
+import { againstWord } from "./verdict-npsh";
 
 type VerdictLike = { status: string } | null | undefined;
 /** The candidate's figures as far as the motor goes (SI: W, fractions); a frozen selection's may lack any of them. */
@@ -23,31 +24,29 @@ const shaftAtDuty = (f: NonNullable<MotorFigures>) => (f.motorLoadAtDuty != null
 
 /**
  * What the motor says against the verdict, or null where it says nothing against it (no motor limit, non-overloading, or
- * not judged): at the operating point itself, "the motor is overloaded at the operating point: one pump takes ⟦power|…⟧,
- * above motor rating × service factor ⟦power|…⟧"; else, where the check found an overload off the duty, its own words
- * ("the motor can overload: largest power on the curve … exceeds motor rating × service factor …").
+ * not judged): `atDuty` where one pump's shaft power at the operating point is above the limit ("the motor is overloaded at
+ * the operating point: one pump takes ⟦power|…⟧, above motor rating × service factor ⟦power|…⟧"), else, where the check
+ * found an overload off the duty, its own words ("the motor can overload: largest power on the curve … exceeds …").
  */
-export function motorAgainstVerdict(f: MotorFigures): string | null {
+function motorAgainst(f: MotorFigures): { atDuty: boolean; text: string } | null {
   if (!f || f.motorLimit == null || !(f.motorLimit > 0)) return null;
   const shaft = shaftAtDuty(f);
   if (shaft != null && Number.isFinite(shaft) && shaft >= 0 && !limitCovers(f.motorLimit, shaft))
-    return `the motor is overloaded at the operating point: one pump takes ${qtExact("power", shaft, [f.motorLimit])}, above motor rating × service factor ${qtLimit("power", f.motorLimit, [shaft])}`;
-  if (f.nonOverloading === false && f.motorCheck) return `the motor ${f.motorCheck}`;
+    return { atDuty: true, text: `the motor is overloaded at the operating point: one pump takes ${qtExact("power", shaft, [f.motorLimit])}, above motor rating × service factor ${qtLimit("power", f.motorLimit, [shaft])}` };
+  if (f.nonOverloading === false && f.motorCheck) return { atDuty: false, text: `the motor ${f.motorCheck}` };
   return null;
 }
 
 /** The qualifier on the verdict's line: "but …" after "meets the duty", "and …" after any other verdict; null where the motor says nothing against it. */
 export function verdictMotorNote(verdict: VerdictLike, f: MotorFigures): string | null {
-  if (!verdict) return null;
-  const against = motorAgainstVerdict(f);
-  return against ? `${verdict.status === "meets" ? "but" : "and"} ${against}` : null;
+  const against = verdict ? motorAgainst(f) : null;
+  return against ? `${againstWord(verdict!)} ${against.text}` : null;
 }
 
 /** The chart label's short form: ", but the motor overloads at the operating point" / ", but the motor can overload" ("" where it says nothing against it). */
 export function verdictMotorShort(verdict: VerdictLike, f: MotorFigures): string {
-  const against = verdict ? motorAgainstVerdict(f) : null;
-  if (!against) return "";
-  return `, ${verdict!.status === "meets" ? "but" : "and"} the motor ${against.includes("at the operating point") ? "overloads at the operating point" : "can overload"}`;
+  const against = verdict ? motorAgainst(f) : null;
+  return against ? `, ${againstWord(verdict!)} the motor ${against.atDuty ? "overloads at the operating point" : "can overload"}` : "";
 }
 
 /** The rule, for the note's title. */

@@ -33,6 +33,9 @@ export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string 
   return `NPSHa / NPSHr ${ratio} at ${n.at}${pair}, below the wanted ${wanted ?? "margin"}: low NPSH margin`;
 }
 
+/** How a qualifier joins the verdict on its line: "but" after "meets the duty", "and" after any other verdict (NPSH, staged starts, the motor alike). */
+export const againstWord = (verdict: { status: string }): "but" | "and" => (verdict.status === "meets" ? "but" : "and");
+
 /**
  * The qualifier shown right after the verdict's badge, on its line: " — but …" after "meets the duty", " — and …" after
  * any other verdict; null where NPSH says nothing against it.
@@ -40,11 +43,11 @@ export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string 
 export function verdictNpshNote(verdict: VerdictLike, n: NpshJudgement | null | undefined): string | null {
   if (!verdict) return null;
   const against = npshAgainstVerdict(n);
-  return against ? `${verdict.status === "meets" ? "but" : "and"} ${against}` : null;
+  return against ? `${againstWord(verdict)} ${against}` : null;
 }
 
 /** The chart label's short form: ", but NPSH cavitation risk" / ", and NPSH low margin" ("" where NPSH says nothing against it). */
 export function verdictNpshShort(verdict: VerdictLike, n: NpshJudgement | null | undefined): string {
   if (!verdict || !npshAgainstVerdict(n)) return "";
-  return `, ${verdict.status === "meets" ? "but" : "and"} NPSH ${n!.status === "cavitation-risk" ? "cavitation risk" : "low margin"} at ${n!.at}`;
+  return `, ${againstWord(verdict)} NPSH ${n!.status === "cavitation-risk" ? "cavitation risk" : "low margin"} at ${n!.at}`;
 }

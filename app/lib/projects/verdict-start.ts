@@ -7,6 +7,7 @@
 // line, with its rule and numbers, as NPSH does (verdict-npsh.ts). Pure; quantities as tokens (quantityText.ts).
 import { fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 import type { StagedStart } from "./arrangement-start";
+import { againstWord } from "./verdict-npsh";
 
 type VerdictLike = { status: string } | null | undefined;
 
@@ -66,11 +67,11 @@ export function startAgainstVerdict(shortfalls: unknown): string | null {
 export function verdictStartNote(verdict: VerdictLike, shortfalls: unknown): string | null {
   if (!verdict) return null;
   const against = startAgainstVerdict(shortfalls);
-  return against ? `${verdict.status === "meets" ? "but" : "and"} ${against}` : null;
+  return against ? `${againstWord(verdict)} ${against}` : null;
 }
 
 /** The chart label's short form: ", but not met if started one after another" ("" where it says nothing against it). */
 export function verdictStartShort(verdict: VerdictLike, shortfalls: unknown): string {
   if (!verdict || !startAgainstVerdict(shortfalls)) return "";
-  return `, ${verdict.status === "meets" ? "but" : "and"} not met if started one after another`;
+  return `, ${againstWord(verdict)} not met if started one after another`;
 }
