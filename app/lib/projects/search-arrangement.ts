@@ -88,6 +88,15 @@ export function dutyShare(duty: { flow: number; head: number }, a: SearchArrange
   return s.arrangement === "parallel" ? { flow: duty.flow / s.dutyPumps, head: duty.head } : { flow: duty.flow, head: duty.head / s.dutyPumps };
 }
 
+/**
+ * What the search's duty is called where it is one pump's share, or undefined for one pump (the typed duty itself):
+ * "one pump's share of the duty (2 duty pumps in parallel: the duty flow / 2)".
+ */
+export function shareName(a: SearchArrangement | undefined): string | undefined {
+  const s = severalPumps(a);
+  return s ? `one pump's share of the duty (${arrangementWords(s)}: the duty ${s.arrangement === "parallel" ? "flow" : "head"} / ${s.dutyPumps})` : undefined;
+}
+
 /** "2 duty pumps in parallel + 1 standby", "3 duty pumps in series", "one pump". */
 export function arrangementWords(a: SearchArrangement | undefined): string {
   const s = severalPumps(a);

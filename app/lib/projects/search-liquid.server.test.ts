@@ -102,4 +102,23 @@ describe("search on a viscous liquid: a curve naming no speed", () => {
     expect(nameless.warnings.map((x) => x.message).join(" ")).toMatch(/names no speed, so B cannot be computed/);
     expect(inSI(r.liquidSearch!.message)).toMatch(/1 curve set naming no speed: B needs the speed, so searched at the duty itself on the water curves/);
   });
+
+  test("pumps in parallel: the plan and the rows name one pump's share of the duty, never 'the duty itself' (it is not)", async () => {
+    const w = await viewerOfUser((await makeMember("admin")).userId);
+    const id = await viscProbeSystem(w, await viscProbeProject(w, { nameless: true }), undefined, "Oil line, two pumps");
+    const r = await searchForSystem(w, id, { allowBeyondCatalogue: true, arrangement: { arrangement: "parallel", dutyPumps: 2, standbyPumps: 0 } });
+    const plan = r.liquidSearch!;
+    // The duty searched is one pump's: the typed flow / 2 at the typed head (search-arrangement.ts dutyShare, common practice).
+    expect(plan.duty.flow).toBeCloseTo(r.system.input.duty!.flow / 2, 12);
+    expect(plan.duty.head).toBe(r.system.input.duty!.head);
+    const g = plan.groups.find((x) => x.status === "corrected")!;
+    expect(g.waterDuty.flow).toBeCloseTo(plan.duty.flow / g.factors!.flow, 9); // Q_W = Q_vis / C_Q (ANSI/HI 9.6.7, from memory) of the share
+    const share = "one pump's share of the duty (2 duty pumps in parallel: the duty flow / 2)";
+    expect(plan.message).toContain(`ANSI/HI 9.6.7 (from memory) of ${share}:`);
+    expect(plan.message).toContain(`B needs the speed, so searched at ${share} on the water curves`);
+    expect(plan.message).not.toContain("the duty itself");
+    const warnings = r.results.flatMap((x) => x.warnings.map((m) => m.message)).join(" ");
+    expect(warnings).toContain(`figures on the water curve at ${share} (the curve names no speed`);
+    expect(warnings).not.toContain("the duty itself");
+  });
 });

@@ -34,7 +34,7 @@ export type LiquidSearchPlan = {
   liquid: string;
   /** m²/s */
   kinematicViscosity: number;
-  /** The typed (viscous) duty: m³/s, m. */
+  /** The duty searched on the liquid: m³/s, m — the typed duty for one pump, one pump's share for several (`dutyName`). */
   duty: { flow: number; head: number };
   /** Some set was searched at an equivalent water duty: the rows' figures are the liquid's. */
   ranksOnLiquid: boolean;
@@ -52,8 +52,10 @@ type Liquid = { name: string; kinematicViscosity: number; density: number };
  * @param duty the typed duty on the liquid: m³/s, m (per stage: the curves are taken as one stage, as the workbench does)
  * @param liquid name, kinematic viscosity m²/s, density kg/m³
  * @param options the engine's search options (its `limit` is the most rows returned)
+ * @param dutyName what `duty` is, in the plan's and the rows' words: "the duty itself" for one pump; for pumps in parallel
+ *   or series, one pump's share of the typed duty (search-arrangement.ts `dutyShare`), which the plan must not call the duty
  */
-export function searchOnLiquid(index: SearchIndex, duty: { flow: number; head: number }, liquid: Liquid, options: SearchOptions): { result: SearchResult; plan: LiquidSearchPlan } {
+export function searchOnLiquid(index: SearchIndex, duty: { flow: number; head: number }, liquid: Liquid, options: SearchOptions, dutyName = DUTY_ITSELF): { result: SearchResult; plan: LiquidSearchPlan } {
   // Positions of the sets per speed (−1: none named).
   const bySpeed = new Map<number, number[]>();
   for (let e = 0; e < index.count; e++) {
@@ -78,7 +80,7 @@ export function searchOnLiquid(index: SearchIndex, duty: { flow: number; head: n
     s.positions.push(...bySpeed.get(g.speed ?? -1)!);
   }
   const ranksOnLiquid = groups.some((g) => g.status === "corrected");
-  const plan: LiquidSearchPlan = { liquid: liquid.name, kinematicViscosity: liquid.kinematicViscosity, duty, ranksOnLiquid, groups, rule: EQUIVALENT_WATER_DUTY_RULE, message: planMessage(liquid, groups) };
+  const plan: LiquidSearchPlan = { liquid: liquid.name, kinematicViscosity: liquid.kinematicViscosity, duty, ranksOnLiquid, groups, rule: EQUIVALENT_WATER_DUTY_RULE, message: planMessage(liquid, groups, dutyName) };
   if (!ranksOnLiquid) return { result: searchDuty(index, duty, options), plan }; // today's search, unchanged
   let positions: Map<string, number> | null = null; // id → position in the index, made for the first slowed row only
   const slowed = (c: Candidate, speed: number, factors: { head: number; efficiency: number }) => {
@@ -92,7 +94,7 @@ export function searchOnLiquid(index: SearchIndex, duty: { flow: number; head: n
     // A pump slowed down runs at speed × ratio: B is taken there, not at the group's speed (atSlowedSpeed).
     const rows = g.status === "corrected" ? r.candidates.map((c) => (c.method === "speed" ? slowed(c, g.speed!, g.factors!) : onLiquid(c, duty, g.factors!, liquid.density)))
       : g.status === "no-correction" ? r.candidates
-      : r.candidates.map((c) => ({ ...c, warnings: [...c.warnings, { code: WATER_FIGURES, message: waterFiguresText(c.speed === null ? "no-speed" : "outside-method") }] }));
+      : r.candidates.map((c) => ({ ...c, warnings: [...c.warnings, { code: WATER_FIGURES, message: waterFiguresText(c.speed === null ? "no-speed" : "outside-method", dutyName) }] }));
     return { r, rows };
   });
   const rows = parts.flatMap((p) => p.rows);
@@ -141,12 +143,15 @@ function atSlowedSpeed(one: SearchIndex, c: Candidate, speed: number, factors: {
   return onLiquid(found.row, duty, found.factors, liquid.density);
 }
 
+/** What the search's duty is called for one pump; pumps in parallel or series name one pump's share instead. */
+const DUTY_ITSELF = "the duty itself";
+
 /** The warning code of a row whose figures stay the water curve's in a search ranked on the liquid. */
 const WATER_FIGURES = "viscous-water-figures";
 /** A row of a search ranked on the liquid whose figures are the water curve's (no speed for B, or B above 40): ranked after the others. */
 export const onWaterFigures = (c: Pick<Candidate, "warnings">) => c.warnings.some((w) => w.code === WATER_FIGURES);
-const waterFiguresText = (why: "no-speed" | "outside-method") =>
-  `figures on the water curve at the duty itself (${why === "no-speed" ? "the curve names no speed, so B cannot be computed" : `B above ${VISCOSITY_B_MAX}, outside the ANSI/HI 9.6.7 method`}): ranked after the pumps whose figures are estimated on the liquid`;
+const waterFiguresText = (why: "no-speed" | "outside-method", dutyName: string) =>
+  `figures on the water curve at ${dutyName} (${why === "no-speed" ? "the curve names no speed, so B cannot be computed" : `B above ${VISCOSITY_B_MAX}, outside the ANSI/HI 9.6.7 method`}): ranked after the pumps whose figures are estimated on the liquid`;
 
 /**
  * A row found at the equivalent water duty, with the liquid's figures (ANSI/HI 9.6.7, from memory): head × C_H, efficiency
@@ -164,19 +169,19 @@ function onLiquid(c: Candidate, duty: { flow: number }, f: { head: number; effic
 const bText = (b: number) => fmtNumExact(b, [1, VISCOSITY_B_MAX], 2);
 
 /** One line: each speed's B, factors and water duty (quantity tokens), or why the duty itself was searched. */
-function planMessage(liquid: Liquid, groups: readonly LiquidSearchGroup[]): string {
+function planMessage(liquid: Liquid, groups: readonly LiquidSearchGroup[], dutyName: string): string {
   const cst = liquid.kinematicViscosity * 1e6;
   const parts = groups.map((g) => {
     const at = g.speed === null ? `${g.sets} curve set${g.sets === 1 ? "" : "s"} naming no speed` : `${Math.round(g.speed)} rpm`;
-    if (g.status === "no-speed") return `${at}: B needs the speed, so searched at the duty itself on the water curves`;
-    if (g.status === "no-correction") return `${at}: B = ${bText(g.b!)}, at most 1: no correction, the duty itself`;
-    if (g.status === "outside-method") return `${at}: B = ${bText(g.b!)}, above ${VISCOSITY_B_MAX}: outside the method, so ranked on the water curves at the duty itself as before (each verdict says the curve is not corrected)`;
+    if (g.status === "no-speed") return `${at}: B needs the speed, so searched at ${dutyName} on the water curves`;
+    if (g.status === "no-correction") return `${at}: B = ${bText(g.b!)}, at most 1: no correction, ${dutyName}`;
+    if (g.status === "outside-method") return `${at}: B = ${bText(g.b!)}, above ${VISCOSITY_B_MAX}: outside the method, so ranked on the water curves at ${dutyName} as before (each verdict says the curve is not corrected)`;
     const f = g.factors!;
     return `${at}: B = ${bText(g.b!)}, C_Q ${f.flow.toFixed(3)}, C_H ${f.head.toFixed(3)}, C_η ${f.efficiency.toFixed(3)} → water duty ${qt("flow", g.waterDuty.flow)} at ${qt("head", g.waterDuty.head)}`;
   });
   const corrected = groups.some((g) => g.status === "corrected");
   const what = `${liquid.name} (ν ${fmtNum(cst, cst < 10 ? 2 : 0)} cSt)`;
   return corrected
-    ? `Searched for ${what} at the equivalent water duty of ANSI/HI 9.6.7 (from memory): ${parts.join("; ")}. Those rows' efficiency, shaft power, head and "why this rank" are estimates on the liquid (C_η × the water efficiency at the water duty); a pump slowed down takes B at the speed it runs at (a larger B than at its curve's speed), its speed and water duty found together.`
-    : `No equivalent water duty of ANSI/HI 9.6.7 (from memory) for ${what}: ${parts.join("; ")}.`;
+    ? `Searched for ${what} at the equivalent water duty of ANSI/HI 9.6.7 (from memory)${dutyName === DUTY_ITSELF ? "" : ` of ${dutyName}`}: ${parts.join("; ")}. Those rows' efficiency, shaft power, head and "why this rank" are estimates on the liquid (C_η × the water efficiency at the water duty); a pump slowed down takes B at the speed it runs at (a larger B than at its curve's speed), its speed and water duty found together.`
+    : `No equivalent water duty of ANSI/HI 9.6.7 (from memory) for ${what}${dutyName === DUTY_ITSELF ? "" : ` at ${dutyName}`}: ${parts.join("; ")}.`;
 }

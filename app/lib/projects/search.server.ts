@@ -16,7 +16,7 @@ import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
 import { fmtNumExact } from "~/engine/quantityText";
 import { judgeSearchRow, type Judged, type JudgedSetting } from "./search-judge";
-import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
+import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, shareName, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import { catalogueOf, getSystem } from "./projects.server";
 import { LRUCache } from "lru-cache";
@@ -231,7 +231,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // A custom liquid: searched at the equivalent water duty of ANSI/HI 9.6.7 (search-liquid.ts). Water: the engine's search alone.
   const fluid = system.input.fluid;
   const searchAt = (limit: number) => fluid.kind === "custom"
-    ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, { ...options, limit })
+    ? searchOnLiquid(prepared.index, duty, { name: fluid.name || "the custom liquid", kinematicViscosity: evaluation.fluid.kinematicViscosity, density: evaluation.fluid.density }, { ...options, limit }, shareName(arrangement))
     : { result: searchDuty(prepared.index, duty, { ...options, limit }), plan: null };
   const judging = { prepared, libraryName, own, verdicts, input: system.input, filters };
   let found = searchAt(options.limit!);
