@@ -159,23 +159,27 @@ export function fittingKDetailed(fittingId: string, diameter: number, nominal?: 
   const what = size.fromNominal ? `nominal size ${fmtIn(size.inches)} in` : `bore ${qtExact("diameter", diameter, ends)}`;
   const end = (inches: number) => (size.fromNominal ? qt("diameter", inches * INCH) : qtLimit("diameter", inches * INCH, [diameter]));
   const slack = size.fromNominal ? 1 : 0.9;
-  if (f.sizeRange && (size.inches < f.sizeRange.min * slack || size.inches > f.sizeRange.max)) {
-    warnings.push({ code: "fitting-size-outside-range", parameter: "nominal",
-      message: `${f.name}: ${what} is outside the ${end(f.sizeRange.min)}–${end(f.sizeRange.max)} the reference covers; K extrapolated` });
-  }
-  const listed = nominal !== undefined && CRANE_FT[nominal] !== undefined;
-  if (!listed && (size.inches < CRANE_FT_RANGE.min * slack || size.inches > CRANE_FT_RANGE.max)) {
-    warnings.push({ code: "ft-outside-table", parameter: "nominal",
-      message: `${f.name}: ${what} is outside Crane's fT table (½–24 in); fT from the rough-pipe Colebrook limit` });
-  }
   const ft = fittingFrictionFactor(diameter, nominal);
   let n: number;
   if (f.model.type === "ft-by-size") {
     const bands = f.model.bands;
     n = (bands.find((b) => size.inches <= b.upTo * (1 + 1e-9)) ?? bands[bands.length - 1]).n; // 1e-9: m → in rounding at an edge
   } else n = f.model.n;
-  const k = n * ft;
-  return { k: f.model.type === "ft-multiple" && f.model.atLeast !== undefined ? Math.max(k, f.model.atLeast) : k, warnings };
+  const floor = f.model.type === "ft-multiple" ? f.model.atLeast : undefined;
+  const k = floor !== undefined ? Math.max(n * ft, floor) : n * ft;
+  // The K used, with how it was made, on every warning about the size (an engineer signs the number, not "extrapolated").
+  const used = `K = ${n} × fT ${ft.toFixed(4)} = ${(n * ft).toFixed(3)}${floor !== undefined && n * ft < floor ? `, raised to its floor ${floor}` : ""} used`;
+  if (f.sizeRange && (size.inches < f.sizeRange.min * slack || size.inches > f.sizeRange.max)) {
+    warnings.push({ code: "fitting-size-outside-range", parameter: "nominal",
+      message: `${f.name}: ${what} is outside the ${end(f.sizeRange.min)}–${end(f.sizeRange.max)} the reference covers; K extrapolated with the nearest size band's n: ${used}` });
+  }
+  const listed = nominal !== undefined && CRANE_FT[nominal] !== undefined;
+  if (!listed && (size.inches < CRANE_FT_RANGE.min * slack || size.inches > CRANE_FT_RANGE.max)) {
+    // fittingFrictionFactor takes the rough-pipe limit at the bore, but never below 1 mm (the formula's domain).
+    warnings.push({ code: "ft-outside-table", parameter: "nominal",
+      message: `${f.name}: ${what} is outside Crane's fT table (½–24 in); fT from the rough-pipe Colebrook limit of clean steel (ε 0.045 mm) at a bore of ${qt("diameter", Math.max(diameter, 1e-3))}: ${used}` });
+  }
+  return { k, warnings };
 }
 
 /**

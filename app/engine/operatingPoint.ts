@@ -107,6 +107,12 @@ const MAX_SUBDIVISIONS = 10_000;
  * falls back to bisection (see roots.ts), so a cap past 10 000 only hides a typo (NaN, Infinity or 2.5 were taken before).
  */
 const MAX_ITERATIONS = 10_000;
+/**
+ * Relative head difference (dimensionless) below which the pump's head above the system's at the curve's last point is
+ * rounding, and the curves meet there (helper "tableedge"): 1e-12 of the head is a few hundred ulps, far below any
+ * published head's digits (a 30 m head to 3e-11 m), and far above the ulps a system curve through that point is off by.
+ */
+const LAST_POINT_MATCH = 1e-12;
 
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
@@ -132,6 +138,11 @@ function solveInner(
   }
   qs.push(knots[knots.length - 1]);
   const gs = qs.map(g);
+  // At the curve's last point, a pump head above the system's by rounding only (a system curve drawn through the last
+  // published point computes an ulp or two below it: 30.509999999999998 m against 30.51 m) is a meeting there, not a
+  // pump running past its curve: within LAST_POINT_MATCH of the head the curves meet at the last point.
+  const lastI = gs.length - 1;
+  if (gs[lastI] > 0 && gs[lastI] <= LAST_POINT_MATCH * Math.abs(gs[lastI] + systemHead(qs[lastI]))) gs[lastI] = 0;
   const roots: { x: number; fx: number; method: "brent" | "bisection"; iterations: number }[] = [];
   const xtol = 1e-13 * c.flowMax;
   let iterations = 0;

@@ -224,6 +224,26 @@ export function fluidOf(input: SystemInput): Fluid {
 export const tableMaterial = (pipeTable: string): string | null => PIPE_TABLES.find((t) => t.id === pipeTable)?.material ?? null;
 
 /**
+ * A stored run's catalogue size that the catalogue no longer gives as stored (old data: a table or size since removed,
+ * or a size whose dimensions were corrected since): the stored inner diameter is what the system is computed with, said
+ * with its number and the table's; null when the run names no size or the table gives the stored bore (to 1e-9).
+ */
+function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
+  if (!r.pipeTable || !r.nominal) return null;
+  const table = PIPE_TABLES.find((t) => t.id === r.pipeTable);
+  const used = `the stored inner diameter ${qt("diameter", r.diameter)} is used as it was saved`;
+  if (!table) return `${name}: the pipe table "${r.pipeTable}" is not in the catalogue any more; ${used}. Check the bore, then pick a table size or type the inner diameter.`;
+  const size = table.sizes.find((s) => s.nominal === r.nominal);
+  if (!size) {
+    const [first, last] = [table.sizes[0].nominal, table.sizes[table.sizes.length - 1].nominal];
+    return `${name}: ${table.name} lists no size "${r.nominal}" (its sizes run ${first} to ${last}); ${used}. Check the bore, then pick a size of the table or type the inner diameter.`;
+  }
+  if (Math.abs(size.innerDiameter - r.diameter) <= 1e-9 * size.innerDiameter) return null;
+  const [stored, now] = qtPair("diameter", r.diameter, size.innerDiameter);
+  return `${name}: ${table.name} ${r.nominal} has an inner diameter of ${now} in the catalogue now, but the run was saved with ${stored}, which is used. Save the run again to take the table's bore.`;
+}
+
+/**
  * What the runs as stored say beyond the engine's own warnings, each naming the run and its numbers: a run whose
  * material is not its pipe table's (its roughness is another material's), and an aged roughness below the new one
  * (aged pipe is then computed with the new value, `runSpec`; the editor refuses it, stored documents keep it).
@@ -233,6 +253,8 @@ export function runInputWarnings(input: SystemInput): string[] {
   input.runs.forEach((r) => {
     const name = r.name || `A ${r.side} run`;
     const table = PIPE_TABLES.find((t) => t.id === r.pipeTable);
+    const sizeWords = sizeNotInCatalogue(r, name);
+    if (sizeWords) out.push(sizeWords);
     if (table && table.material !== r.material) {
       const tm = MATERIALS.find((m) => m.id === table.material);
       const rm = MATERIALS.find((m) => m.id === r.material);
