@@ -109,7 +109,7 @@ const MAX_SUBDIVISIONS = 10_000;
 const MAX_ITERATIONS = 10_000;
 /**
  * Relative head difference (dimensionless) below which the pump's head above the system's at the curve's last point is
- * rounding, and the curves meet there (helper "tableedge"): 1e-12 of the head is a few hundred ulps, far below any
+ * rounding, and the curves meet there: 1e-12 of the head is a few hundred ulps, far below any
  * published head's digits (a 30 m head to 3e-11 m), and far above the ulps a system curve through that point is off by.
  */
 const LAST_POINT_MATCH = 1e-12;
