@@ -9,7 +9,7 @@ import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgemen
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
-import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, startNoteOf, VerdictView } from "./workbench";
+import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
 import { perPumpPowerText, totalPowerText } from "./power-text";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -69,7 +69,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} />)],
+    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} stagedNpshNote={stagedNpshNoteOf(c.result, c.energy, unitSystem)} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
     ["Crossing", (c) => (c.error ? "—" : c.result?.operating?.flow === 0 ? <span className="text-duty-ink">{deadHeadText(unitSystem, c.result.operating.head)}</span> : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
