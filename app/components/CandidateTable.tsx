@@ -3,12 +3,13 @@
 // and electrical input per pump and for the duty pumps together, the largest power on the curve and the motor per pump
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
+import { serviceFactorNote } from "~/lib/projects/motor-service-factor";
 import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
 import { perPumpPowerText, totalPowerText } from "./power-text";
 
@@ -119,6 +120,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
             {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}${b ? " on each pump" : ""}` : "—"}
             {f.motorLimit != null ? ` · ${loadText(f.motorLoadAtDuty, mo.rating != null ? f.motorLimit / mo.rating : null)} load${b ? " per pump at the operating point" : ""}` : ""}
           </div>
+          {serviceFactorNote(f) ? <div data-testid={`motor-sf-${c.id}`} className="font-semibold text-duty-ink">▲ {renderUnits(serviceFactorNote(f)!, unitSystem)}</div> : null}
           {f.motorLimit != null ? <div data-testid={`motor-check-${c.id}`} className={f.nonOverloading === false ? "font-semibold text-fail" : f.nonOverloading == null ? "font-semibold text-duty-ink" : ""}>{overloadText(f)}{b ? " (one pump)" : ""}</div> : null}
           <div className="text-xs text-slate-600">Suggested{b ? " per pump (each pump has its own motor)" : ""}: {mo.suggestionBasis}.</div>
         </div>

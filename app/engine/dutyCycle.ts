@@ -376,6 +376,11 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const sfText = fmtPctLimit(sf), sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
     if (!limitCovers(motorLimit(rating, sf), shaft))
       warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], sfDecimals)} load, above its rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
+    // Above the rating but within rating × service factor: not an overload, but the step runs into the service factor for
+    // its hours; a service factor is margin for occasional overload, not for continuous running (common practice, from
+    // memory of NEMA MG 1's service-factor guidance: running there shortens insulation life). A note, not a failure.
+    else if (!limitCovers(rating, shaft))
+      warnings.push({ code: "motor-service-factor-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [1, sf], Math.max(1, sfDecimals))} load, above its rating and within rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [rating / units])} is above the ${qtLimit("power", rating / units, [shaft / units])} rating for ${Number(s.hours.toFixed(2))} h a year; a service factor is margin for occasional overload, not for continuous running (common practice): a motor of the next rating up is the usual choice` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));

@@ -9,6 +9,7 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
 import { verdictStagedNpshNote } from "./verdict-staged-npsh";
+import { serviceFactorNote } from "./motor-service-factor";
 import { inSI } from "~/engine/quantityText";
 import { DEFAULT_FLOW_TOLERANCE } from "~/engine";
 
@@ -142,6 +143,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
   add("motor_overload_check", fig?.motorCheck ?? null, ""); // the verdict with its rule and numbers (absent in selections frozen before)
+  // Above the rating, within rating × service factor at the operating point (a note, not an overload: motor-service-factor.ts).
+  add("motor_service_factor_note", (() => { const n = serviceFactorNote(fig); return n ? inSI(n) : null; })(), "");
   add("motor_rating", fig?.motor?.rating ?? null, "W");
   add("motor_rating_source", fig?.motor?.ratingSource ?? null, "");
   add("motor_suggested", fig?.motor?.suggestedRating ?? null, "W");
