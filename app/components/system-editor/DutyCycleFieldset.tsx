@@ -75,7 +75,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         <NumberField label="Discount rate (% per year)" name="energy.discount" def={pctText(energy.discountRate)} errors={errors} />
       </div>
       <p className="text-xs text-slate-500">
-        Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
+        Tariff escalation or discount rate left blank: 0 % per year (no escalation, no discounting). Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
       </p>
     </section>
   );
