@@ -188,8 +188,8 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                         <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
                         <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
                       </>
-                    ) : s.status === "gravity-flow" ? (
-                      // No pump head needed: met, 0 kWh, with the engine's assumption (not a warning mark).
+                    ) : s.status === "gravity-flow" || s.status === "no-demand" ? (
+                      // No pump head needed, or no demand (0 % flow): met, pump stopped, 0 kWh, with the engine's assumption (not a warning mark).
                       <td colSpan={6} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
                         {stepVerdict(s)}: {s.message}
                       </td>

@@ -27,3 +27,12 @@ describe("a step running into the motor's service factor", () => {
     expect(codes({ rating: 599.9, efficiency: 0.8 }).map((x) => x.code)).toEqual(["motor-overload-step"]);
   });
 });
+
+describe("a 0 % flow step of pumps in parallel staged by demand", () => {
+  it("runs none of the duty pumps (0 of 2), 0 kWh, counted (it was refused)", async () => {
+    const { stagedDutyCycleEnergy } = await import("./index.ts");
+    const r = stagedDutyCycleEnergy({ ...base, pumpCurve: base.curve, dutyPumps: 2, motor: { rating: 600, efficiency: 0.8 }, profile: [{ flowFraction: 0, hours: 500 }] });
+    expect(r.steps[0]).toMatchObject({ status: "no-demand", pumpsRunning: 0, dutyPumps: 2, energyKWh: 0, pumpShaftPower: 0 });
+    expect(r.complete).toBe(true);
+  });
+});

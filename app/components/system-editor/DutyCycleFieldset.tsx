@@ -31,7 +31,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         {err("energy.control")}
       </div>
       <fieldset className="space-y-2">
-        <legend className="label">Load profile (flow as % of the duty flow, hours per year)</legend>
+        <legend className="label">Load profile (flow as % of the duty flow, hours per year; 0 % flow: hours with no demand, the pump stopped)</legend>
         <label className="flex items-start gap-2 text-sm">
           <input type="radio" name="energy.profileKind" value="common-practice" defaultChecked={!energy.profile} />
           <span>
