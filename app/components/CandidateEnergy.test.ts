@@ -32,7 +32,7 @@ describe("a life-cycle cost on an incomplete duty cycle is marked wherever it is
     expect(html).toMatch(/understated \(incomplete: 1 of 3 steps not met\)/);
     const rep = report(e);
     expect(rep).toMatch(/Pump A \(incomplete: 1 of 3 steps not met\): \d+\.\d\d GBP/); // the report's chart
-    expect(rep).toMatch(/life-cycle cost \(present value\): \d+\.\d\d GBP over 15 years \(incomplete: 1 of 3 steps not met\)/); // the printed line
+    expect(rep).toMatch(/life-cycle cost \(present value\): \d+\.\d\d GBP over 15 years at a tariff escalation of \+3 %\/year and a discount rate of 5 %\/year \(incomplete: 1 of 3 steps not met\)/); // the printed line
   });
   it("the same step with 0 h leaves the cycle complete: no mark anywhere", () => {
     const e = withProfile(0);

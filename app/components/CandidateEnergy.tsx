@@ -54,12 +54,13 @@ export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis 
 export const lccWarnings = (lcc: Energy["lcc"] | undefined): string[] => (lcc?.warnings ?? []).map((w) => w.message);
 
 /**
- * The life-cycle cost as one line: its total and years, marked when incomplete, with its warnings (rule and numbers);
- * why there is none when hours or tariff are not given.
+ * The life-cycle cost as one line: its total and years (with `rates`, the tariff escalation and discount rate too), marked
+ * when incomplete, with its warnings (rule and numbers); why there is none when hours or tariff are not given.
  */
-export function lccText(e: Energy | null | undefined, currency: string): string {
+export function lccText(e: Energy | null | undefined, currency: string, rates = false): string {
   const lcc = lccShown(e);
-  if (lcc) return `${moneyText(lcc.total, currency)} over ${lccYears(lcc)}${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  // `rates`: the period with the rates it was computed with ("over 15 years at a tariff escalation of +3 %/year and a discount rate of 5 %/year"), for the printed line.
+  if (lcc) return `${moneyText(lcc.total, currency)} ${rates ? lccRatesText(lcc) : `over ${lccYears(lcc)}`}${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
   const none = noStepCounted(e?.cycle);
   if (none) return `not computed (${none})`;
   return e?.costMissing ? `— (${e.costMissing})` : "—";
@@ -187,8 +188,8 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
                         <td className="pr-2">{s.driveEfficiency == null ? "no drive" : fmtPct(s.driveEfficiency)}</td>
                         <td className="pr-2">{fmtPower(unitSystem, s.electricalPower)}</td>
                       </>
-                    ) : s.status === "gravity-flow" ? (
-                      // No pump head needed: met, 0 kWh, with the engine's assumption (not a warning mark).
+                    ) : s.status === "gravity-flow" || s.status === "no-demand" ? (
+                      // No pump head needed, or no demand (0 % flow): met, pump stopped, 0 kWh, with the engine's assumption (not a warning mark).
                       <td colSpan={6} className="pr-2 text-slate-700" data-testid={`step-${c.id}-${i}`}>
                         {stepVerdict(s)}: {s.message}
                       </td>

@@ -3,13 +3,14 @@
 // and electrical input per pump and for the duty pumps together, the largest power on the curve and the motor per pump
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
-import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, startNoteOf, VerdictView } from "./workbench";
+import { serviceFactorNote } from "~/lib/projects/motor-service-factor";
+import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
 import { perPumpPowerText, totalPowerText } from "./power-text";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -69,7 +70,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} />)],
+    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} stagedNpshNote={stagedNpshNoteOf(c.result, c.energy, unitSystem)} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
     ["Crossing", (c) => (c.error ? "—" : c.result?.operating?.flow === 0 ? <span className="text-duty-ink">{deadHeadText(unitSystem, c.result.operating.head)}</span> : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
@@ -119,6 +120,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
             {mo.rating != null ? `${fmtPower(unitSystem, mo.rating)} ${mo.ratingSource === "user" ? "(yours)" : "(suggested)"}${b ? " on each pump" : ""}` : "—"}
             {f.motorLimit != null ? ` · ${loadText(f.motorLoadAtDuty, mo.rating != null ? f.motorLimit / mo.rating : null)} load${b ? " per pump at the operating point" : ""}` : ""}
           </div>
+          {serviceFactorNote(f) ? <div data-testid={`motor-sf-${c.id}`} className="font-semibold text-duty-ink">▲ {renderUnits(serviceFactorNote(f)!, unitSystem)}</div> : null}
           {f.motorLimit != null ? <div data-testid={`motor-check-${c.id}`} className={f.nonOverloading === false ? "font-semibold text-fail" : f.nonOverloading == null ? "font-semibold text-duty-ink" : ""}>{overloadText(f)}{b ? " (one pump)" : ""}</div> : null}
           <div className="text-xs text-slate-600">Suggested{b ? " per pump (each pump has its own motor)" : ""}: {mo.suggestionBasis}.</div>
         </div>

@@ -26,7 +26,8 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
           A staged cycle's energy is of the pumps running at each step, not of every duty pump together. */}
       <p className="hidden text-xs print:block" data-testid="energy-print">
         {e.cycle ? `Energy per year${cycleStaged(e.cycle) ? ", the pumps running at each step," : basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
-        {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency)}` : ""}
+        {/* With the rates it was computed with (years, tariff escalation, discount rate), as the screen's assumption line. */}
+        {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency, true)}` : ""}
         {lcc ? ` (${lcc.source})` : ""}.
       </p>
       {/* Pumps in parallel staged by demand: how many run at each step, with the rule (the screen's "Pumps running" column). */}

@@ -121,7 +121,7 @@ describe("an implausible tariff escalation is said wherever the life-cycle cost 
     expect(rows(e)["Life-cycle cost (present value)"]).toMatch(WARN);
     expect(panel(e)).toMatch(WARN);
     const rep = renderToStaticMarkup(createElement(SelectionEnergy, { c: { id: 7, label: "Pump A", energy: e }, unitSystem: SI_UNITS, currency: "EUR" }));
-    expect(text(/<p class="hidden text-xs print:block"[^>]*>([\s\S]*?)<\/p>/.exec(rep)![1])).toMatch(/life-cycle cost \(present value\): [\d.e+]+ EUR over 50 years — ▲ tariff escalation 100\.0 %\/year/);
+    expect(text(/<p class="hidden text-xs print:block"[^>]*>([\s\S]*?)<\/p>/.exec(rep)![1])).toMatch(/life-cycle cost \(present value\): [\d.e+]+ EUR over 50 years at a tariff escalation of \+100 %\/year and a discount rate of 5 %\/year — ▲ tariff escalation 100\.0 %\/year/);
     expect(report(e)).toMatch(WARN);
   });
   it("flips at 15 %/year over 2 years (growth 1.15×): nothing at 15 %, the warning just above", () => {

@@ -1,6 +1,6 @@
 /**
  * A duty cycle's totals: which steps count, whether the cycle is complete, its energy per year. Steps whose energy is in
- * the total: computed (`ok`, `throttled-at-min-on-curve-speed`) or no pumping needed (`gravity-flow`, 0 kWh); the others
+ * the total: computed (`ok`, `throttled-at-min-on-curve-speed`) or no pumping needed (`gravity-flow`, 0 kWh) or no demand (`no-demand`, 0 % flow, 0 kWh); the others
  * (not met, or not computed for want of power data) leave the cycle incomplete and their energy out of the total, said
  * with their count (`cycle-incomplete`). Shared by dutyCycle.ts and dutyStaging.ts. Units: kWh per year.
  */
@@ -8,7 +8,7 @@ import type { EngineWarning } from "./errors.ts";
 import type { StepResult, StepStatus } from "./dutyCycle.ts";
 
 /** Steps whose energy is in the total (see the module comment); the others leave the cycle incomplete. */
-export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "throttled-at-min-on-curve-speed"];
+export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "no-demand", "throttled-at-min-on-curve-speed"];
 const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);
 
 /**

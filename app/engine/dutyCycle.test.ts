@@ -155,11 +155,12 @@ describe("duty-cycle edges", () => {
     expect(r.annualEnergyKWh).toBe(0);
     expect(r.complete).toBe(true);
   });
-  it("fractions above 1 are computed up to 150 %; above that, at or below 0, NaN or Infinity are refused", () => {
+  it("fractions above 1 are computed up to 150 %; above that, below 0, NaN or Infinity are refused; 0 is no demand, the pump stopped", () => {
     const r = dutyCycleEnergy({ ...base, systemHead: (q) => 15.5 * (q / (15 * M3H)) ** 2, profile: [{ flowFraction: 1.5, hours: 10 }] });
     expect(r.steps[0].status).toBe("ok");
     expect(r.steps[0].shaftPower).toBeCloseTo(720, 6); // the 15 m³/h knot
-    for (const f of [1.6, 0, -0.5, NaN, Infinity]) expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: f, hours: 10 }] })).toThrow(EngineInputError);
+    expect(dutyCycleEnergy({ ...base, profile: [{ flowFraction: 0, hours: 10 }] }).steps[0]).toMatchObject({ status: "no-demand", energyKWh: 0 }); // was refused
+    for (const f of [1.6, -0.5, NaN, Infinity]) expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: f, hours: 10 }] })).toThrow(EngineInputError);
     expect(() => dutyCycleEnergy({ ...base, profile: [{ flowFraction: 0.5, hours: NaN }] })).toThrow(EngineInputError);
   });
   it("an empty profile, a year of more than 8784 h, and an unknown mode are refused", () => {

@@ -34,6 +34,7 @@
  *   such a step at max(control head, system head) instead would price a controller that is not the mode chosen.
  *   Hence, step by step where all are met, energy: constant pressure ≥ proportional pressure ≥ system curve;
  *   a step not met drops out of the total (`complete` false), so compare totals only when complete.
+ *   A step at 0 % flow (`no-demand`): hours with no demand, the pump taken as stopped, 0 kWh, met and counted.
  *   No pump head needed (`system-curve` only: a pressure set point must be above 0): where the system's head at the
  *   step's flow is ≤ 0, its static head and pressure difference (gravity, a lower pressure on the discharge surface, or
  *   both) drive at least that flow, so no pump head is needed and a valve throttles the flow to the step's. The step
@@ -75,7 +76,7 @@ export const isControlMode = (x: unknown): x is ControlMode => CONTROL_MODES.som
 /** Head at zero flow of the proportional-pressure curve, fraction of H_set (common practice). */
 export const PROPORTIONAL_ZERO_FLOW = 0.5;
 
-/** One step of a duty cycle: a fraction of the design flow (0 < f ≤ 1.5) and hours per year at it. */
+/** One step of a duty cycle: a fraction of the design flow (0 ≤ f ≤ 1.5; 0: no demand, the pump stopped) and hours per year at it. */
 export interface DutyStep {
   flowFraction: number;
   hours: number;
@@ -118,8 +119,9 @@ export const DRIVE_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.
 export const PART_LOAD_SOURCE = "motor and drive part-load factors: common practice assumption (from memory of typical IE3 motor and PWM drive part-load data; check the makers' data)";
 
 /** `gravity-flow`: no pump head needed at the step (system head ≤ 0), pump taken as stopped, 0 kWh; met like `ok`. */
+/** `no-demand`: a step at 0 % flow — hours with the system at zero demand: the pump is stopped, 0 kWh; met like `ok`. */
 /** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
-export type StepStatus = "ok" | "gravity-flow" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
+export type StepStatus = "ok" | "gravity-flow" | "no-demand" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
 export { COUNTED_STEP_STATUSES } from "./cycleTotals.ts";
 
@@ -271,7 +273,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (input.profile.length > MAX_STEPS) throw new EngineInputError("profile", `has more than ${MAX_STEPS} steps`);
   let totalHours = 0;
   for (const [i, s] of input.profile.entries()) {
-    const f = requirePositive(`profile[${i}].flowFraction`, s?.flowFraction);
+    const f = requireNonNegative(`profile[${i}].flowFraction`, s?.flowFraction); // 0: no demand, the pump stopped
     if (f > MAX_FLOW_FRACTION) throw new EngineInputError(`profile[${i}].flowFraction`, `is above ${MAX_FLOW_FRACTION} (150 % of the design flow)`);
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
@@ -289,6 +291,15 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const none = (status: StepStatus, message: string, head: number | null = null, speedRatio: number | null = null): StepResult => ({
       ...base, head, speedRatio, efficiency: null, shaftPower: null, loadFraction: null, motorEfficiency: null, driveEfficiency: null, electricalPower: null, energyKWh: null, status, message,
     });
+    // Hours at zero demand are real (a plant idle at night, a season off): the pump is stopped, 0 kWh, and the step is met
+    // and counted (common practice: a pump with nothing to deliver is switched off, not run against a closed valve).
+    if (s.flowFraction === 0) {
+      return {
+        ...base, head: null, speedRatio: 0, efficiency: null, shaftPower: 0, loadFraction: 0, motorEfficiency: null, driveEfficiency: null, electricalPower: 0, energyKWh: 0,
+        status: "no-demand",
+        message: "0 % flow: no demand, so the pump is taken as stopped, 0 kWh (assumed: it is switched off, not run against a closed valve; a pump kept running at zero flow is not counted and overheats)",
+      };
+    }
     let head: number;
     let n: number;
     let shaft: number | null;
@@ -376,6 +387,11 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const sfText = fmtPctLimit(sf), sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
     if (!limitCovers(motorLimit(rating, sf), shaft))
       warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], sfDecimals)} load, above its rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
+    // Above the rating but within rating × service factor: not an overload, but the step runs into the service factor for
+    // its hours; a service factor is margin for occasional overload, not for continuous running (common practice, from
+    // memory of NEMA MG 1's service-factor guidance: running there shortens insulation life). A note, not a failure.
+    else if (!limitCovers(rating, shaft))
+      warnings.push({ code: "motor-service-factor-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [1, sf], Math.max(1, sfDecimals))} load, above its rating and within rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [rating / units])} is above the ${qtLimit("power", rating / units, [shaft / units])} rating for ${Number(s.hours.toFixed(2))} h a year; a service factor is margin for occasional overload, not for continuous running (common practice): a motor of the next rating up is the usual choice` });
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));

@@ -9,7 +9,7 @@
  * no power data) and where the k motors are not overloaded (no `motor-overload-step`): a pump is not left alone past its
  * motor's rating × service factor while another duty pump stands ready (assumed, common practice). Where every k meets
  * the flow only with its motors overloaded, the first k that meets it is kept, its overload warned. A step needing no
- * pump head (`gravity-flow`) runs none (0 of N). A step no k ≤ N meets reads as with all N running, its numbers as
+ * pump head (`gravity-flow`) or at 0 % flow (`no-demand`) runs none (0 of N). A step no k ≤ N meets reads as with all N running, its numbers as
  * dutyCycleEnergy gives them then (not met, as without staging). Standby pumps never run.
  * Each running pump has its own motor (and drive) on one pump's load: motor and drive losses per motor as in
  * dutyCycle.ts (`motor.units` = k), electrical input and energy the k motors' together.
@@ -66,7 +66,7 @@ export function stagedDutyCycleEnergy(input: StagedDutyCycleInput): DutyCycleRes
     const k = runs.indexOf(run) + 1;
     const s = run.steps[i];
     warnings.push(...atStep(run, i));
-    const running = s.status === "gravity-flow" ? 0 : k;
+    const running = s.status === "gravity-flow" || s.status === "no-demand" ? 0 : k;
     return { ...s, pumpsRunning: running, dutyPumps: n, pumpShaftPower: s.shaftPower == null ? null : running === 0 ? 0 : s.shaftPower / k };
   });
   const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, n);

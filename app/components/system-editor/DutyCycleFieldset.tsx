@@ -31,7 +31,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         {err("energy.control")}
       </div>
       <fieldset className="space-y-2">
-        <legend className="label">Load profile (flow as % of the duty flow, hours per year)</legend>
+        <legend className="label">Load profile (flow as % of the duty flow, hours per year; 0 % flow: hours with no demand, the pump stopped)</legend>
         <label className="flex items-start gap-2 text-sm">
           <input type="radio" name="energy.profileKind" value="common-practice" defaultChecked={!energy.profile} />
           <span>
@@ -75,7 +75,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         <NumberField label="Discount rate (% per year)" name="energy.discount" def={pctText(energy.discountRate)} errors={errors} />
       </div>
       <p className="text-xs text-slate-500">
-        Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
+        Tariff escalation or discount rate left blank: 0 % per year (no escalation, no discounting). Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
       </p>
     </section>
   );

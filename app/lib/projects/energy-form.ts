@@ -30,17 +30,19 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
       profile.push({ flowFraction: pct / 100, hours });
     }
   }
-  const pct = (key: string, label: string, fallback: number) => {
+  // A rate left blank is 0 %/year — no escalation, no discounting — as the form's hint says (DutyCycleFieldset.tsx); it
+  // took the example 3 % and 5 % (DEFAULT_ENERGY_SETTINGS), a value nobody typed, into the life-cycle cost.
+  const pct = (key: string, label: string) => {
     const n = decimalField(f.get(key), key, label, errors);
-    return n == null ? fallback : n / 100;
+    return n == null ? 0 : n / 100;
   };
   return {
     control,
     profile,
     // A count, digits only (shared/decimal.ts countField): "1e1" or "15,0" were read as years. Blank keeps the stored years.
     years: countField(f.get("energy.years"), "energy.years", "Years", errors, MAX_LCC_YEARS, base.years, MIN_LCC_YEARS) ?? base.years,
-    escalation: pct("energy.escalation", "Tariff escalation", base.escalation),
-    discountRate: pct("energy.discount", "Discount rate", base.discountRate),
+    escalation: pct("energy.escalation", "Tariff escalation"),
+    discountRate: pct("energy.discount", "Discount rate"),
   };
 }
 

@@ -42,7 +42,8 @@ export const MIN_LCC_YEARS = 1;
 export const MAX_LCC_YEARS = 50;
 
 export const DutyStepSchema = v.object({
-  flowFraction: v.pipe(num("Flow fraction"), v.gtValue(0, "A step's flow must be above 0 %."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
+  // 0 %: hours with the system at zero demand, the pump stopped (engine dutyCycle.ts `no-demand`).
+  flowFraction: v.pipe(num("Flow fraction"), v.minValue(0, "A step's flow cannot be negative (0 %: no demand, the pump stopped)."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
   hours: v.pipe(num("Hours"), v.minValue(0, "Hours cannot be negative."), v.maxValue(8784, "A year has at most 8784 hours (a leap year: 366 days × 24 h).")),
 });
 
@@ -288,16 +289,19 @@ function viscousNote(input: InputLike, r: NonNullable<EvaluatedLike["result"]>, 
 type CycleNotes = { steps?: readonly unknown[]; warnings?: readonly { parameter?: string | null; code?: string | null; message: string }[] };
 
 /**
- * How a step that is not "ok" reads at the step: met with the pump stopped (no pump head needed, 0 kWh, counted; the step's
+ * How a step that is not "ok" reads at the step: stopped at 0 % flow (no demand, 0 kWh, counted); met with the pump stopped (no pump head needed, 0 kWh, counted; the step's
  * message names the cause — gravity, the pressure difference or both),
  * met at the lowest speed that keeps the flow on the curve with the surplus head throttled (counted), not computed (no
- * data) or not met (the pump or the control cannot reach it).
+ * data) or not met (the pump or the control cannot reach it) — said with its 0 h where it has none, as the totals count it.
  */
-export function stepVerdict(s: { status: string }): string {
+export function stepVerdict(s: { status: string; hours?: number }): string {
   if (s.status === "ok") return "";
   if (s.status === "gravity-flow") return "met, no pump head needed, pump stopped";
+  if (s.status === "no-demand") return "stopped, no demand";
   if (s.status === "throttled-at-min-on-curve-speed") return "met, throttled at the lowest on-curve speed";
-  return s.status === "no-power-data" ? "not computed" : "not met";
+  const v = s.status === "no-power-data" ? "not computed" : "not met";
+  // A step of 0 h never runs: its energy is not missing from the totals, which count it as complete (cycleTotals.ts).
+  return s.hours === 0 ? `${v}, at 0 h a year: never run, so nothing is missing from the totals` : v;
 }
 
 /** "1 of 2": the duty pumps running at a step of pumps in parallel staged by demand (engine dutyStaging.ts); "" at any other step. */

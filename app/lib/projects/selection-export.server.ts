@@ -8,6 +8,8 @@ import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
+import { verdictStagedNpshNote } from "./verdict-staged-npsh";
+import { serviceFactorNote } from "./motor-service-factor";
 import { inSI } from "~/engine/quantityText";
 import { DEFAULT_FLOW_TOLERANCE } from "~/engine";
 
@@ -30,14 +32,15 @@ export const SELECTION_JSON_UNITS =
  * The JSON export: the frozen document as stored (in SI, its texts rendered in SI) under the selection's id, title and
  * note, with the caution and the units it is in, and the verdict as the report's headline reads it — `verdict` (absent
  * where the selection was frozen before verdicts existed; null where no duty point was set), and what NPSH and a staged
- * start and the motor check say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`, as the CSV's `verdict_npsh`,
- * `verdict_start` and `verdict_motor`; null: nothing).
+ * start, the motor check and NPSH at a staged duty-cycle step say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`,
+ * `verdictStagedNpsh`, as the CSV's `verdict_npsh`, `verdict_start`, `verdict_motor` and `verdict_staged_npsh`; null: nothing).
  */
 export function selectionJson(s: { id: number; title: string; note: string; createdAt: Date }, frozen: FrozenSelection) {
   const verdict = frozen.result.verdict;
   const npsh = verdictNpshNote(verdict, frozen.result.npsh);
   const start = verdictStartNote(verdict, frozen.result.stagedStart);
   const motor = verdictMotorNote(verdict, frozen.result.figures);
+  const stagedNpsh = verdictStagedNpshNote(verdict, frozen.energy?.cycle);
   return {
     id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(),
     caution: SELECTION_CAUTION,
@@ -46,6 +49,7 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
     verdictNpsh: npsh ? inSI(npsh) : null,
     verdictStart: start ? inSI(start) : null,
     verdictMotor: motor ? inSI(motor) : null,
+    verdictStagedNpsh: stagedNpsh ? inSI(stagedNpsh) : null,
     ...frozen,
   };
 }
@@ -112,6 +116,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   add("verdict_start", (() => { const n = verdictStartNote(verdict, f.result.stagedStart); return n ? inSI(n) : null; })(), "");
   // What the motor check says against the verdict (overloaded at the operating point, or can overload), as on the report's verdict line.
   add("verdict_motor", (() => { const n = verdictMotorNote(verdict, f.result.figures); return n ? inSI(n) : null; })(), "");
+  // What NPSH at a duty-cycle step with fewer pumps in parallel running says against the verdict (step, pumps running, NPSHa, NPSHr, rule).
+  add("verdict_staged_npsh", (() => { const n = verdictStagedNpshNote(verdict, f.energy?.cycle); return n ? inSI(n) : null; })(), "");
   add("verdict_rule", verdict?.rule, "");
   (verdict?.reasons ?? []).forEach((r, i) => add(`verdict_reason_${i + 1}`, r, ""));
   add("verdict_edge", verdict?.edge, "");
@@ -137,6 +143,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   add("max_power_on_curve", fig?.maxPower, "W");
   add("motor_non_overloading", fig?.nonOverloading, "");
   add("motor_overload_check", fig?.motorCheck ?? null, ""); // the verdict with its rule and numbers (absent in selections frozen before)
+  // Above the rating, within rating × service factor at the operating point (a note, not an overload: motor-service-factor.ts).
+  add("motor_service_factor_note", (() => { const n = serviceFactorNote(fig); return n ? inSI(n) : null; })(), "");
   add("motor_rating", fig?.motor?.rating ?? null, "W");
   add("motor_rating_source", fig?.motor?.ratingSource ?? null, "");
   add("motor_suggested", fig?.motor?.suggestedRating ?? null, "W");

@@ -20,6 +20,9 @@ import { fmtNumExact, fmtPct, qt, qtExact } from "~/engine/quantityText";
 export const stagedNpshRule = (wanted: number): string =>
   `common practice: NPSHa / NPSHr at least the wanted ${wanted}; below 1, or NPSHa at or below zero whatever the pump, a cavitation risk`;
 
+/** A staged step's NPSH warning with what it found (`npshStatus`; absent in cycles frozen before it was kept, and on "not judged"). */
+export type StagedNpshWarning = EngineWarning & { npshStatus?: "cavitation-risk" | "low-margin" };
+
 export type StagedNpshInput = {
   cycle: Pick<DutyCycleResult, "mode" | "steps">;
   /** ONE pump's curve at the speed the cycle's speed ratios are fractions of (the one the staged cycle ran on), with its NPSHr column where published. */
@@ -38,8 +41,8 @@ export type StagedNpshInput = {
  * one pump's share. Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
  * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met.
  */
-export function stagedNpshWarnings(input: StagedNpshInput): EngineWarning[] {
-  const out: EngineWarning[] = [];
+export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] {
+  const out: StagedNpshWarning[] = [];
   const fluid = input.prepared.fluid;
   const wanted = input.requiredMargin;
   input.cycle.steps.forEach((s, i) => {
@@ -55,7 +58,7 @@ export function stagedNpshWarnings(input: StagedNpshInput): EngineWarning[] {
     const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
     const npshr = `NPSHr ${nr == null ? "" : qtExact("head", nr, [na])} of one pump at its share${speed !== 1 ? ` at ${fmtPct(speed)} speed (NPSHr ∝ N², affinity laws)` : ""}`;
     if (!(na > 0)) {
-      out.push({ code: "staged-npsh", parameter: `profile[${i}]`, message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
+      out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: "cavitation-risk", message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
       return;
     }
     if (nr == null || !(nr > 0)) {
@@ -66,7 +69,7 @@ export function stagedNpshWarnings(input: StagedNpshInput): EngineWarning[] {
     const status = npshStatus(ratio, wanted);
     if (status === "ok") return;
     const verdict = status === "cavitation-risk" ? "below 1, NPSHa below NPSHr: cavitation risk" : `below the wanted ${wanted}: low NPSH margin`;
-    out.push({ code: "staged-npsh", parameter: `profile[${i}]`, message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
+    out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: status === "cavitation-risk" ? "cavitation-risk" : "low-margin", message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
   });
   return out;
 }

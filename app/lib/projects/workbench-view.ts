@@ -5,6 +5,7 @@ import type { DocProblem } from "./stored-doc";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
+import { verdictStagedNpshNote } from "./verdict-staged-npsh";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
 /**
@@ -46,7 +47,8 @@ const ratioWhere = (ratio: number | null, available: number | null | undefined) 
  * what NPSH over the band says against the verdict on its line (verdict-npsh.ts, as the search API and every page showing the
  * verdict), its `result.verdictStart`, what starting pumps in parallel one after another says against it on the same line
  * (verdict-start.ts), with `result.stagedStart` (the numbers behind it, documented, [] where none), its `result.verdictMotor`,
- * what the motor check says against it (verdict-motor.ts: overloaded at the operating point, or can overload), and no NPSH margin ratio
+ * what the motor check says against it (verdict-motor.ts: overloaded at the operating point, or can overload), its
+ * `result.verdictStagedNpsh`, what NPSH at a staged duty-cycle step says against it (verdict-staged-npsh.ts), and no NPSH margin ratio
  * where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
  */
 export function workbenchApiView(view: WorkbenchView) {
@@ -62,6 +64,8 @@ export function workbenchApiView(view: WorkbenchView) {
           verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
           verdictStart: verdictStartNote(r.verdict, r.stagedStart),
           verdictMotor: verdictMotorNote(r.verdict, r.figures),
+          // NPSH at a duty-cycle step where fewer pumps in parallel run (verdict-staged-npsh.ts), on the same line.
+          verdictStagedNpsh: verdictStagedNpshNote(r.verdict, c.energy?.cycle),
           stagedStart: r.stagedStart ?? [],
           figures: r.figures ? { ...r.figures, npshMarginRatio: ratioWhere(r.figures.npshMarginRatio, r.figures.npshAvailable) } : null,
           band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioWhere(b.npshMarginRatio, b.npshAvailable) })),
