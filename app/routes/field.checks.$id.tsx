@@ -8,7 +8,7 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { crossOf, crossSentences, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { Crumbs } from "~/components/Crumbs";
@@ -68,6 +68,7 @@ export default function FieldCheckRecord() {
   const e = r.engine;
   const band = e.flowBand;
   const cross = crossOf(r);
+  const note = verdictNote(r);
   const rpm = speedRpm(rd.speed);
   // The measured speed apart from the ends of the range the curve may be translated in (the warning's numbers), never "1450 rpm" for 1449.7.
   const ends = r.speed.rated !== null ? SPEED_RANGE.map((f) => f * r.speed.rated!) : [];
@@ -85,6 +86,7 @@ export default function FieldCheckRecord() {
           <VerdictBadge verdict={d.check.verdict} grade={d.check.grade} large />
         </p>
         <p className="text-sm">{renderUnits(r.message, sys)}.</p>
+        {note ? <p className="text-sm" data-testid="verdict-note">{renderUnits(note, sys)}</p> : null}
         {cross ? (
           <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-cross">
             {crossSentences(cross, { flow: (v, against = [], limit) => fmtQExact(sys, "flow", v, against, limit), head: (v, against = [], limit) => fmtQExact(sys, "head", v, against, limit) }).map((t, i) => (

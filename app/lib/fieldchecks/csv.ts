@@ -4,7 +4,8 @@ import { toCsv } from "../shared/csv";
 import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
 import { powerGradeState, powerLimitStates } from "./power-grade";
-import type { CheckResult } from "./result";
+import { verdictNote, type CheckResult } from "./result";
+import { inSI } from "~/engine/quantityText";
 import type { CheckTimes } from "./taken-at";
 
 type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
@@ -28,7 +29,9 @@ const VERDICT_RULE =
   "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
-  "unknown: no flow meter, so flow and head are not judged.";
+  "unknown: no flow meter, so flow and head are not judged; or, with one, verdict_note says why (the measured speed outside the range the curve may be translated in, " +
+  "a liquid with no curve to hold the pump to, or a measured flow outside the flows the curve is published for that the grade's flow arm does not reach). " +
+  "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so.";
 
 /**
  * One row per check (oldest taken first, as `checksOf` orders them, reversed) after three comment lines naming the selection, the cautions and the verdict rule. A check whose stored
@@ -48,7 +51,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     [VERDICT_RULE],
     ...unreadable,
     [
-      "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "grade", "flow_source",
+      "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "verdict_note", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "head_allowed_below", "head_allowed_above", "flow_allowed_below", "flow_allowed_above",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
@@ -62,7 +65,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     if (!c.readable) continue;
     const r = c.result;
     lines.push([
-        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, c.grade, r.engine.flowSource,
+        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, verdictNote(r) === null ? "" : inSI(verdictNote(r)!), c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,

@@ -26,6 +26,7 @@ import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type ev
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
+import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
@@ -224,6 +225,12 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // is 724.7 rpm, not "725 rpm", which is 50 % of 1450 rpm, inside the range).
     warnings.push(`No tolerance verdict: the measured speed (${fmtNumExact(measured!, SPEED_RANGE.map((f) => f * rated!), 0)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${fmtNumExact(rated!, [Math.round(rated!)], 0)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
+  // A measured flow outside the curve's published flows: judged only on the part of the cross that reaches the published
+  // curve, and said so; where the cross does not reach it, no tolerance verdict (curve-ends.ts).
+  const curveEnd = verdict !== "unknown" && engine.flowSource === "measured" && engine.flow !== null ? curveEndOf(curve, engine.flow, grade, readings.flowAccuracy) : null;
+  const endNote = curveEnd ? (curveEnd.reaches ? curveEndJudgedNote(curveEnd, grade.id, grade, readings.flowAccuracy) : curveEndNoVerdict(curveEnd, grade.id, grade, readings.flowAccuracy)) : null;
+  if (curveEnd && !curveEnd.reaches) verdict = "unknown";
+  if (endNote) warnings.push(endNote);
   // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
   const withinWords = within && verdict === "marginal"
     ? `(flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
@@ -270,7 +277,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
-      : marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null),
+      : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
+      : `${marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
@@ -317,5 +325,7 @@ export function deliveredSentence(r: CheckResult): string {
   const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
   const first = q !== null ? `Delivered ${qt("flow", q)} (${src}) at ${qt("head", r.delivered.head)}` : `Measured head ${qt("head", r.delivered.head)}; flow could not be inferred`;
   const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}. ${powerGradeSummary(r)}`;
+  // Off the curve's published flows, judged on the part published: said with the verdict (curve-ends.ts).
+  const published = r.warnings.find((w) => w.startsWith(PUBLISHED_PART));
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
 }

@@ -1,7 +1,7 @@
 // The field-check form: what the contractor types (any unit) ⇄ readings in SI. Pure: no
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
-import { fluidTemperatureRangeC, fromSI, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
+import { fluidTemperatureRangeC, fromSI, STANDARD_ATMOSPHERE, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
 import { fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
 import type { UnitChoice } from "../shared/units";
@@ -197,23 +197,37 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     f[key] = fallback; // the form is drawn again from these fields: only a unit it offers
     return fallback;
   };
-  /** A number in `unit` → SI; required unless `optional`; bounds in SI. */
-  const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean } = {}): number | null => {
+  /**
+   * A number in `unit` → SI; required unless `optional`; bounds in SI. Every refusal names the field and the range the form
+   * takes, in the unit typed (`word`: the unit's label where the field has no quantity), and `why` a bound is where it is.
+   */
+  const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean; word?: string; why?: string } = {}): number | null => {
+    const shown = (si: number) => String(Number((q ? fromSI(q, unit, si) : si).toPrecision(6))).replace("-", "−");
+    const word = q ? unitLabel(q, unit) : (opts.word ?? "");
+    const w = word ? (word === "%" ? " %" : ` ${word}`) : "";
+    const range = opts.min !== undefined && opts.max !== undefined
+      ? `${opts.minOpen ? `more than ${shown(opts.min)}${w} and at most` : `from ${shown(opts.min)}${w} to`} ${shown(opts.max)}${w}${opts.why ? ` (${opts.why})` : ""}`
+      : null;
+    const takes = range ? `: the form takes ${range}` : "";
     // The forms' strict reader (shared/decimal.ts): a decimal point or comma; 1,500 refused as ambiguous.
     const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
-    if (x === null) return null;
+    if (x === null) {
+      // Not a number (NaN, Infinity, 1e400…): the message says so, then the range the field takes.
+      if (range && errors[key] && !errors[key].startsWith("Enter ") && !errors[key].includes("ambiguous")) errors[key] = `${errors[key].replace(/\.$/, "")}; the form takes ${range}.`;
+      return null;
+    }
     // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
     if (!(Math.abs(x) <= MAX_MAGNITUDE)) {
-      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}: check the value and its unit.`;
+      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}${takes}; check the value and its unit.`;
       return null;
     }
     const si = q ? toSI(q, unit, x) : x;
     if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
-      errors[key] = `${capital(label)} is too low: check the value and its unit.`;
+      errors[key] = `${capital(label)} is too low${takes}; check the value and its unit.`;
       return null;
     }
     if (opts.max !== undefined && si > opts.max) {
-      errors[key] = `${capital(label)} is too high: check the value and its unit.`;
+      errors[key] = `${capital(label)} is too high${takes}; check the value and its unit.`;
       return null;
     }
     return si;
@@ -229,8 +243,12 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   const gauge = (p: "s" | "d", side: string): GaugeSI | null => {
     const reference = pick(`${p}Ref`, ["gauge", "absolute"] as const, "gauge");
     // Gauge: from full vacuum (−1 atm) to 1000 bar; absolute: from 0.
-    const pressure = num(`${p}Pressure`, `the ${side} pressure`, "pressure", pUnit, { min: reference === "absolute" ? 0 : -101_325, max: 1e8 });
-    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7 }) ?? 0;
+    const pressure = num(`${p}Pressure`, `the ${side} pressure`, "pressure", pUnit, {
+      min: reference === "absolute" ? 0 : -STANDARD_ATMOSPHERE,
+      max: 1e8,
+      why: reference === "absolute" ? "an absolute reading is never below zero; up to 1000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1000 bar",
+    });
+    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" }) ?? 0;
     const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });
     const diameter = num(`${p}Diameter`, `the ${side} pipe inner diameter`, "diameter", dUnit, { min: 0.005, max: 3 });
     if (pressure === null || elevation === null || diameter === null) return null;
@@ -238,32 +256,32 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   };
   const suction = gauge("s", "suction");
   const discharge = gauge("d", "discharge");
-  const flow = num("flow", "the flow reading", "flow", qUnit, { optional: true, min: 0, max: 100 });
-  const flowAccPct = num("flowAccuracy", "the flow meter accuracy", null, "", { optional: true, min: 0, max: 50 });
+  const flow = num("flow", "the flow reading", "flow", qUnit, { optional: true, min: 0, max: 100, why: "a flow meter reads the flow forward" });
+  const flowAccPct = num("flowAccuracy", "the flow meter accuracy", null, "", { optional: true, min: 0, max: 50, word: "%" });
 
   let speed: SpeedSI = { mode: "none" };
   const speedMode = pick("speedMode", ["rpm", "vfd"] as const, "rpm");
   if (speedMode === "rpm") {
-    const rpm = num("rpm", "the speed", null, "", { optional: true, min: 100, max: 10_000 });
+    const rpm = num("rpm", "the speed", null, "", { optional: true, min: 100, max: 10_000, word: "rpm", why: "a running pump; leave it blank when the speed was not measured" });
     if (rpm !== null) speed = { mode: "rpm", rpm };
   } else {
-    const hz = num("hz", "the drive frequency", null, "", { min: 5, max: 120 });
-    const baseHz = num("baseHz", "the motor's base frequency", null, "", { min: 25, max: 120 });
-    const baseRpm = num("baseRpm", "the motor's base speed", null, "", { min: 100, max: 10_000 });
+    const hz = num("hz", "the drive frequency", null, "", { min: 5, max: 120, word: "Hz" });
+    const baseHz = num("baseHz", "the motor's base frequency", null, "", { min: 25, max: 120, word: "Hz" });
+    const baseRpm = num("baseRpm", "the motor's base speed", null, "", { min: 100, max: 10_000, word: "rpm" });
     if (hz !== null && baseHz !== null && baseRpm !== null) speed = { mode: "vfd", hz, baseHz, baseRpm };
   }
 
   let power: PowerSI = { mode: "none" };
   const powerMode = pick("powerMode", ["none", "input", "electrical"] as const, "none");
-  const motorEffPct = powerMode === "none" ? null : num("motorEfficiency", "the motor efficiency", null, "", { optional: true, min: 30, max: 100 });
+  const motorEffPct = powerMode === "none" ? null : num("motorEfficiency", "the motor efficiency", null, "", { optional: true, min: 30, max: 100, word: "%" });
   const motorEfficiency = motorEffPct === null ? null : motorEffPct / 100;
   const readingAccuracy = powerMode === "none" ? null : powerAccuracyOf(f.powerAccuracy ?? "", errors);
   if (powerMode === "input") {
     const watts = num("power", "the motor input power", "power", wUnit, { min: 0, minOpen: true, max: 5e6 });
     if (watts !== null) power = { mode: "input", watts, motorEfficiency, readingAccuracy };
   } else if (powerMode === "electrical") {
-    const volts = num("volts", "the voltage", null, "", { min: 50, max: 15_000 });
-    const amps = num("amps", "the current", null, "", { min: 0, minOpen: true, max: 5000 });
+    const volts = num("volts", "the voltage", null, "", { min: 50, max: 15_000, word: "V" });
+    const amps = num("amps", "the current", null, "", { min: 0, minOpen: true, max: 5000, word: "A" });
     const powerFactor = num("powerFactor", "the power factor", null, "", { min: 0.05, max: 1 });
     const phases = pick("phases", ["1", "3"] as const, "3");
     if (volts !== null && amps !== null && powerFactor !== null) power = { mode: "electrical", volts, amps, powerFactor, phases: phases === "1" ? 1 : 3, motorEfficiency, readingAccuracy };

@@ -27,7 +27,7 @@ export {
   type Readings,
   type Verdict,
 } from "./form";
-export type { CheckResult, Pt } from "./result";
+export { verdictNote, type CheckResult, type Pt } from "./result";
 export { MAX_CHECK_PHOTO_BYTES, MAX_PHOTO_BYTES, MAX_PHOTOS, photoLimitsText, photoProblem, tooLargeText } from "./photo-limits";
 export { crossOf, crossSentences, type CrossArm } from "./cross";
 export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, type PowerGrade } from "./power-grade";

@@ -10,7 +10,7 @@ import { appUrl } from "../auth/accounts.server";
 import { deliveredSentence } from "./evaluate";
 import { renderUnits } from "../shared/units";
 import { readStoredUnits } from "../auth/stored-units";
-import type { CheckResult } from "./result";
+import { verdictNote, type CheckResult } from "./result";
 import type { CheckTimes } from "./taken-at";
 
 /** The selection as the notice needs it (what `fieldSelection` reads). */
@@ -27,7 +27,7 @@ function whenSentences(times: CheckTimes): string {
  * with its rule and numbers: the measured speed outside the affinity range, or a liquid with no curve to hold the pump to).
  */
 function whyNoVerdict(r: CheckResult): string {
-  return r.warnings.find((w) => w.startsWith("No tolerance verdict:")) ?? `No tolerance verdict: ${r.message} (the check says why).`;
+  return verdictNote(r) ?? `No tolerance verdict: ${r.message} (the check says why).`;
 }
 
 export async function notifyEngineer(viewer: Viewer, sel: NoticeSelection, checkId: number, r: CheckResult, kind: "new" | "amended", times: CheckTimes) {
@@ -52,7 +52,7 @@ export async function notifyEngineer(viewer: Viewer, sel: NoticeSelection, check
       `${oneLine(checkedBy)} recorded a field check on the selection “${selection}” in the project “${project}”.`,
       r.engine.flowSource !== "measured"
         ? "No tolerance verdict: there was no flow meter, so the flow was inferred from the curve."
-        : oneLine(renderUnits(whyNoVerdict(r), units)),
+        : oneLine(renderUnits(whyNoVerdict(r), units), 2000), // the check's own words, whole: cut at 120 characters it lost its numbers
       detail,
       "",
       `Open the field check: ${link}`,

@@ -3,6 +3,7 @@
 import type { FieldCheckResult } from "~/engine";
 import type { Verdict } from "./form";
 import type { PowerGrade } from "./power-grade";
+import { PUBLISHED_PART } from "./curve-ends";
 
 export type Pt = { flow: number; y: number };
 
@@ -31,3 +32,13 @@ export type CheckResult = {
   warnings: string[];
   chart: { selected: Pt[]; measured: Pt[]; selectedEff: Pt[]; measuredEff: Pt[]; system: Pt[] | null; flowMax: number; band: { low: number | null; high: number | null } | null; selectedLabel: string; measuredLabel: string };
 };
+
+/**
+ * What the check says beside its verdict, as a note it made (quantity tokens): why there is no tolerance verdict where a flow
+ * was measured ("No tolerance verdict: …": the speed outside the affinity range, a liquid with no curve, a flow outside the
+ * published curve that the cross does not reach), or that it was judged on the published part of the curve only
+ * (curve-ends.ts); null otherwise. Read by the selection's list of checks, the checks' CSV and the e-mail, so they say what the page says.
+ */
+export function verdictNote(r: Pick<CheckResult, "warnings">): string | null {
+  return r.warnings.find((w) => w.startsWith("No tolerance verdict:") || w.startsWith(PUBLISHED_PART)) ?? null;
+}

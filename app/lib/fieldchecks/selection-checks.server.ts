@@ -8,6 +8,7 @@ import { checksOf } from "./records.server";
 import { gradeRule } from "./form";
 import { powerGradeSummary } from "./power-grade";
 import { unreadableCheckText } from "./stored-check";
+import { verdictNote } from "./result";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
   return (await checksOf(selection.id)).map((c) => {
@@ -23,6 +24,8 @@ export async function checksOfSelection(selection: Awaited<ReturnType<typeof get
       rule: gradeRule(c.result.grade),
       /** The grade's power and efficiency limits: met or not with their numbers, or why not judged. */
       power: powerGradeSummary(c.result),
+      /** Why no verdict where a flow was measured, or that it was judged on the published part of the curve only (the page's note; quantity tokens), or null. */
+      note: verdictNote(c.result),
     };
   });
 }

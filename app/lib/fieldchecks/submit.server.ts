@@ -8,6 +8,7 @@ import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";
 import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
 import { readTakenAt } from "./taken-at";
+import { headRefusal } from "./head-check";
 
 /** Form fields that say how to record, not what was read (never stored among the readings). */
 const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos", "takenAt", "pageWorkspaceId"] as const;
@@ -34,6 +35,9 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
   const amends = raw.amends ? formId(form, "amends") : null;
   const taken = readTakenAt(raw.takenAt);
   if (!taken.ok) errors._form = taken.message;
+  // Gauges that give no head (suction above discharge…) are misread: refused at the field, never recorded as a failing pump.
+  const noHead = parsed.ok ? headRefusal(parsed.readings, selection.frozen.system.input, parsed.fields) : null;
+  if (noHead) errors.dPressure = noHead;
   if (!parsed.ok || Object.keys(errors).length) return { ok: false, status: 400, errors, fields };
 
   const readingFields: CheckFields = { ...fields };

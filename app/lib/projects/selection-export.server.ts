@@ -1,4 +1,4 @@
-// Selection exports: CSV (our own layout, documented in the header lines) and JSON (the frozen record).
+// Selection exports: CSV (our own layout, documented in the header lines) and JSON (a documented shape: SELECTION_JSON_KEYS).
 import type { FrozenSelection } from "./selections.server";
 import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
@@ -28,12 +28,32 @@ export const SELECTION_JSON_UNITS =
   "hoursPerYear and hours h; speeds in rpm; efficiencies, ratios, fractions and tolerances as fractions of 1; money in `currency` " +
   "(selections frozen before it was kept: result.figures.motor.currency); times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units (m³/h, m, mm, kPa, kW).";
 
+/** The JSON export's own format (2: a documented shape; 1 spread the stored record, internal ids included). */
+export const SELECTION_JSON_FORMAT = "dutymark-selection-export/2";
+
 /**
- * The JSON export: the frozen document as stored (in SI, its texts rendered in SI) under the selection's id, title and
- * note, with the caution and the units it is in, and the verdict as the report's headline reads it — `verdict` (absent
- * where the selection was frozen before verdicts existed; null where no duty point was set), and what NPSH and a staged
- * start, the motor check and NPSH at a staged duty-cycle step say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`,
- * `verdictStagedNpsh`, as the CSV's `verdict_npsh`, `verdict_start`, `verdict_motor` and `verdict_staged_npsh`; null: nothing).
+ * Every key the JSON export has at its top level, and in its `project`, `system`, `pump` and `pump.library` (the parts
+ * taken from the stored record key by key); nothing else is written there. The engine's sections (`system.input`,
+ * `systemCurve`, `adjustment`, `result`, `energy`) are the frozen inputs and results as the report reads them.
+ * Not exported: the record's internal ids (project, system, library, revision, curve set), who created it, workspaces.
+ */
+export const SELECTION_JSON_KEYS = {
+  top: ["format", "reference", "title", "note", "createdAt", "frozenAt", "caution", "units", "verdict", "verdictNpsh", "verdictStart", "verdictMotor", "verdictStagedNpsh", "project", "system", "systemCurve", "pump", "adjustment", "result", "energy", "flowMax", "currency"],
+  project: ["name"],
+  system: ["name", "input"],
+  pump: ["label", "model", "type", "size", "library", "speed", "impellerDiameter", "points"],
+  library: ["name", "revision", "traced"],
+} as const;
+
+/**
+ * The JSON export, a documented shape (`SELECTION_JSON_KEYS`): the report's reference (DM-00012), title, note and date, the
+ * caution and the units it is in, the verdict as the report's headline reads it — `verdict` (absent where the selection
+ * was frozen before verdicts existed; null where no duty point was set), and what NPSH, a staged start and the motor check
+ * say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`, as the CSV's `verdict_npsh`, `verdict_start` and
+ * `verdict_motor`; null: nothing) — then the frozen inputs and results (in SI, texts rendered in SI): the project's and
+ * system's names, the system's inputs and curve, the pump as selected (its library by name and revision number, a traced
+ * curve's source), the adjustment, the result, the energy over the duty cycle and the currency. Selections frozen before a
+ * part existed export without it (null), as the report reads them.
  */
 export function selectionJson(s: { id: number; title: string; note: string; createdAt: Date }, frozen: FrozenSelection) {
   const verdict = frozen.result.verdict;
@@ -41,8 +61,12 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
   const start = verdictStartNote(verdict, frozen.result.stagedStart);
   const motor = verdictMotorNote(verdict, frozen.result.figures);
   const stagedNpsh = verdictStagedNpshNote(verdict, frozen.energy?.cycle);
+  const { pump, system } = frozen;
+  const library = pump.library ?? {};
   return {
-    id: s.id, title: s.title, note: s.note, createdAt: s.createdAt.toISOString(),
+    format: SELECTION_JSON_FORMAT,
+    reference: `DM-${String(s.id).padStart(5, "0")}`,
+    title: s.title, note: s.note, createdAt: s.createdAt.toISOString(), frozenAt: frozen.frozenAt,
     caution: SELECTION_CAUTION,
     units: SELECTION_JSON_UNITS,
     verdict,
@@ -50,7 +74,19 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
     verdictStart: start ? inSI(start) : null,
     verdictMotor: motor ? inSI(motor) : null,
     verdictStagedNpsh: stagedNpsh ? inSI(stagedNpsh) : null,
-    ...frozen,
+    project: { name: frozen.project.name },
+    system: { name: system.name, input: system.input },
+    systemCurve: frozen.systemCurve,
+    pump: {
+      label: pump.label, model: pump.model, type: pump.type, size: pump.size,
+      library: { name: library.name ?? null, revision: library.revision ?? null, traced: library.traced ?? null },
+      speed: pump.speed, impellerDiameter: pump.impellerDiameter, points: pump.points,
+    },
+    adjustment: frozen.adjustment,
+    result: frozen.result,
+    energy: frozen.energy ?? null,
+    flowMax: frozen.flowMax,
+    currency: selectionCurrency(frozen) || null,
   };
 }
 /**
