@@ -9,7 +9,6 @@ import { demoCurves, demoCurveSI } from "~/test/demo-curves";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, evaluateSystem, fluidOf, type SystemInput } from "./hydraulics";
 import { verdictNpshNote } from "./verdict-npsh";
 
-const M3H = 1 / 3600;
 const boilingWords = (input: SystemInput) => evaluateSystem(input, { points: 5 }).warnings.filter((w) => w.startsWith("The suction tank's surface pressure"));
 
 describe("a suction tank at or below the vapour pressure", () => {
