@@ -114,6 +114,22 @@ const MAX_ITERATIONS = 10_000;
  */
 const LAST_POINT_MATCH = 1e-12;
 
+/**
+ * Pump head − system head at the pump curve's last point, with the last-point rule: heads apart by at most LAST_POINT_MATCH
+ * of the pump's head are rounding (a system curve drawn through the last published point computes an ulp or two off it),
+ * and the curves meet there (0): above, the pump would otherwise be said to run past its curve; below, the crossing would
+ * land an ulp short of the point. The one rule of `solveOperatingPoint` and the charts' `crossingOf`.
+ * @param pumpHead the pump's head at its curve's last flow, m (or any one head unit)
+ * @param systemHead the system's head at that flow, same unit
+ * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only
+ */
+export function lastPointGap(pumpHead: number, systemHead: number): number {
+  requireFinite("pumpHead", pumpHead);
+  requireFinite("systemHead", systemHead);
+  const gap = pumpHead - systemHead;
+  return Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead) ? 0 : gap;
+}
+
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
   systemHead: (flow: number) => number,
@@ -142,7 +158,7 @@ function solveInner(
   // published point computes an ulp or two below it: 30.509999999999998 m against 30.51 m) is a meeting there, not a
   // pump running past its curve: within LAST_POINT_MATCH of the head the curves meet at the last point.
   const lastI = gs.length - 1;
-  if (gs[lastI] > 0 && gs[lastI] <= LAST_POINT_MATCH * Math.abs(gs[lastI] + systemHead(qs[lastI]))) gs[lastI] = 0;
+  gs[lastI] = lastPointGap(evalCubic(c.head, qs[lastI]) as number, systemHead(qs[lastI]));
   const roots: { x: number; fx: number; method: "brent" | "bisection"; iterations: number }[] = [];
   const xtol = 1e-13 * c.flowMax;
   let iterations = 0;

@@ -2,7 +2,7 @@
  * Curve arithmetic on point lists (any units): cleaning, linear interpolation at a flow, the band
  * between two curves, a slice of a curve, and where two curves cross. Pure; no React, no DOM.
  */
-import { crossingFromRest } from "../../engine/operatingPoint.ts";
+import { crossingFromRest, lastPointGap } from "../../engine/operatingPoint.ts";
 import type { Pt } from "./types.ts";
 
 /**
@@ -102,6 +102,7 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
  * where the samples cannot tell: the system's first sampled flow lies above the pump curve's first (its head at the start is
  * not known; before, the start was judged at the first flow both cover, which marked a point on a pump that cannot start),
  * or the pump's head is still above the system's at the last flow both cover (the engine may find a crossing further out).
+ * At the pump curve's last point the engine's last-point rule (`lastPointGap`): heads apart by rounding only meet there.
  * Used where only sampled curves are at hand (stored field-check charts).
  */
 export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
@@ -114,6 +115,10 @@ export function crossingOf(pump: readonly Pt[] | undefined | null, system: reado
   if (!(hi > lo)) return null;
   const flows = Array.from(new Set([lo, hi, ...p.map((q) => q.flow), ...s.map((q) => q.flow)].filter((f) => f >= lo && f <= hi))).sort((a, b) => a - b);
   const gs = flows.map((f) => (interpolateAt(p, f) as number) - (interpolateAt(s, f) as number));
+  // At the pump curve's last point, the engine's last-point rule: heads apart by rounding only meet there (a system curve
+  // drawn through the last published point computes an ulp or two off it; before, no crossing or one an ulp short).
+  const last = flows.length - 1;
+  if (hi === p[p.length - 1].flow) gs[last] = lastPointGap(p[p.length - 1].y, interpolateAt(s, hi) as number);
   const crossings: Pt[] = [];
   for (let i = 0; i < flows.length; i++) {
     if (gs[i] === 0) crossings.push({ flow: flows[i], y: interpolateAt(p, flows[i]) as number });

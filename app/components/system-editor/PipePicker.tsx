@@ -1,6 +1,7 @@
 // Pipe table and nominal size of one run: tables grouped by standard, a search box that narrows
 // tables and sizes (by standard, name or size label such as "DN100" or "d110"), and the inner
-// diameter of the chosen size shown at once. Without JavaScript the two selects still post.
+// diameter of the chosen size shown at once. Without JavaScript the two selects still post. A table or size the catalogue
+// does not list now (old data) is offered as stored, with the system warning's words.
 import { useMemo, useState } from "react";
 import { PIPE_TABLES, type PipeTable } from "~/engine";
 import { fmtQ, type UnitChoice } from "~/lib/shared/units";
@@ -27,7 +28,13 @@ export function searchPipeTables(query: string, tables: readonly PipeTable[] = P
   });
 }
 
-export function PipePicker({ index, table, nominal, unitSystem, error, onTableChange }: { index: number; table: string; nominal: string; unitSystem: UnitChoice; error?: string; onTableChange?: (tableId: string) => void }) {
+/** A run's table and size as stored where the catalogue does not list them now (system-form.ts `systemFormValues`). */
+export type StoredSize = { table: string; nominal: string; bore: string; note: string };
+
+/** What an option of a table or size the catalogue does not list now says after its name. */
+export const NOT_LISTED = "(not in the catalogue now)";
+
+export function PipePicker({ index, table, nominal, stored, unitSystem, error, onTableChange }: { index: number; table: string; nominal: string; stored?: StoredSize | null; unitSystem: UnitChoice; error?: string; onTableChange?: (tableId: string) => void }) {
   const [query, setQuery] = useState("");
   const [tableId, setTableId] = useState(table);
   const [size, setSize] = useState(nominal);
@@ -39,6 +46,11 @@ export function PipePicker({ index, table, nominal, unitSystem, error, onTableCh
   }, [query, tableId]);
   const current = PIPE_TABLES.find((t) => t.id === tableId) ?? null;
   const sizeRow = current?.sizes.find((s) => s.nominal === size) ?? null;
+  // Old data: the stored table (when the catalogue has it no more) and size stay offered as stored, so the form shows and
+  // posts them unchanged, with the system warning's words (the stored bore is used) while they are chosen.
+  const storedTableGone = !!stored && !PIPE_TABLES.some((t) => t.id === stored.table);
+  const storedShown = !!stored && tableId === stored.table;
+  const asStored = storedShown && size === stored.nominal;
   const d = (m: number) => fmtQ(unitSystem, "diameter", m);
   const p = `run.${index}.`;
   return (
@@ -67,6 +79,11 @@ export function PipePicker({ index, table, nominal, unitSystem, error, onTableCh
           className="field"
         >
           <option value="">typed inner diameter</option>
+          {storedTableGone ? (
+            <option value={stored.table}>
+              {stored.table} {NOT_LISTED}
+            </option>
+          ) : null}
           {groupByStandard(shown).map((g) => (
             <optgroup key={g.standard} label={g.standard}>
               {g.tables.map((t) => (
@@ -84,6 +101,11 @@ export function PipePicker({ index, table, nominal, unitSystem, error, onTableCh
         </label>
         <select id={`f-${p}nominal`} name={`${p}nominal`} value={size} onChange={(e) => setSize(e.target.value)} className="field" aria-describedby={`f-${p}id-hint`}>
           <option value="">—</option>
+          {storedShown ? (
+            <option value={stored.nominal}>
+              {stored.nominal} {NOT_LISTED}
+            </option>
+          ) : null}
           {(current?.sizes ?? []).map((s) => (
             <option key={s.nominal} value={s.nominal}>
               {s.nominal}
@@ -93,12 +115,21 @@ export function PipePicker({ index, table, nominal, unitSystem, error, onTableCh
         {error ? <p className="text-xs text-fail">{error}</p> : null}
       </div>
       <p id={`f-${p}id-hint`} className="col-span-2 text-xs text-slate-600" aria-live="polite">
-        {current && sizeRow
+        {asStored
+          ? stored.note
+          : current && sizeRow
           ? `Inner diameter from the table: ${d(sizeRow.innerDiameter)} (OD ${d(sizeRow.outsideDiameter)}, wall ${d(sizeRow.wall)}) — ${current.source}.`
           : current
             ? `Pick a size of ${current.name}; its inner diameter shows here.`
             : "No table: type the inner diameter below."}
       </p>
+      {stored ? (
+        <>
+          <input type="hidden" name={`${p}storedTable`} value={stored.table} />
+          <input type="hidden" name={`${p}storedNominal`} value={stored.nominal} />
+          <input type="hidden" name={`${p}storedBore`} value={stored.bore} />
+        </>
+      ) : null}
     </>
   );
 }

@@ -63,6 +63,7 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
           index={i}
           table={r.table}
           nominal={r.nominal}
+          stored={r.stored}
           unitSystem={unitSystem}
           error={errors[`run.${i}.nominal`]}
           onTableChange={(id) => {
@@ -72,7 +73,7 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
             if (shown) setShown(next);
           }}
         />
-        <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.table ? "Used only without a table size (see above)." : undefined} />
+        <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.stored ? "The stored bore: used while the size above stays as stored." : r.table ? "Used only without a table size (see above)." : undefined} />
         <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
         <div>
           <label className="label" htmlFor={`f-run.${i}.material`}>

@@ -27,6 +27,7 @@ import {
   type PumpCurve,
 } from "~/engine";
 import { flowMaxOf, runInputWarnings, systemSpec, type SystemInput } from "./system-input";
+import { boilingSuction } from "./suction-boiling";
 import { toPumpPoints, type Adjustment, type CatalogueData, type CurvePointsIn } from "./candidate-input";
 
 export * from "./system-input";
@@ -124,6 +125,8 @@ export function evaluateSystem(input: SystemInput, opts: { flowMax?: number; poi
   });
   const npshaAt = (q: number) => (input.suctionSurfacePressure - fluid.vaporPressure) / (fluid.density * 9.80665) + input.suctionStaticHead - suctionLoss(prepared, q, "aged").headLoss;
   const npsha = curve.flows.map((q) => ({ flow: q, y: npshaAt(q) }));
+  const boiling = boilingSuction(input, fluid);
+  if (boiling) warnings.push(boiling);
   const noSuction = npshaAtZeroFlow(input, fluid);
   if (noSuction) warnings.push(noSuction);
   return {

@@ -4,9 +4,9 @@ import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
 import { qtExact, qtPair } from "~/engine/quantityText";
 import { countField, decimalField } from "../shared/decimal";
-import { labelOf, renderDeep, unitOf, type UnitChoice } from "../shared/units";
+import { labelOf, renderDeep, renderUnits, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
-import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, storedSizeNote, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 
 /** Fittings offered in the editor (ids of app/engine/fittings.ts). */
 export const EDITOR_FITTINGS = [
@@ -119,7 +119,12 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
       try {
         diameter = innerDiameter(pipeTable, nominal);
       } catch {
-        errors[`${p}nominal`] = "Pick a size from this pipe table.";
+        // A table or size the catalogue does not list now, as the run was stored (old data: the editor shows it with the
+        // system warning's words and posts it back with `run.N.storedTable` / `storedNominal`): kept as stored, on the bore
+        // in the inner diameter field (the stored one, `storedBore` in m, where the field still shows it). Any other
+        // unlisted size is refused.
+        if (pipeTable === f.get(`${p}storedTable`) && nominal === f.get(`${p}storedNominal`)) diameter = storedBoreOr(f, p, si("diameter", `${p}diameter`, "the inner diameter"));
+        else errors[`${p}nominal`] = "Pick a size from this pipe table.";
       }
     } else diameter = si("diameter", `${p}diameter`, "the inner diameter");
     const mat = materialForTable(f.get(`${p}material`)?.toString() ?? null, f.get(`${p}materialShown`)?.toString() ?? null, pipeTable);
@@ -257,6 +262,16 @@ export function roughnessHints(materialId: string, pipeTable: string, sys: UnitC
   };
 }
 
+/**
+ * The bore of a run kept on a size the catalogue does not list now: the stored one (`run.N.storedBore`, m, full precision)
+ * where the inner diameter field still shows it to its five significant digits (show()), else the one typed.
+ */
+function storedBoreOr(f: FormLike, p: string, typed: number | null): number | null {
+  const stored = Number(f.get(`${p}storedBore`) ?? NaN);
+  if (typed == null || !(stored > 0)) return typed;
+  return Math.abs(typed - stored) <= SHOWN_PRECISION * stored ? stored : typed;
+}
+
 /** A plain number for a field; blank for NaN (a stored value that is missing or not a number, stored-input.ts `editorInput`). */
 const plain = (x: number) => (Number.isFinite(x) ? String(x) : "");
 
@@ -289,12 +304,16 @@ export function systemFormValues(input: SystemInput, sys: UnitChoice) {
       try {
         mat = materialOf(r.material);
       } catch {}
+      // A table or size the catalogue does not list now (old data): shown as stored, with the system warning's words, its
+      // stored bore in the inner diameter field (used while the size stays as stored: readSystemForm).
+      const note = storedSizeNote(r);
       return {
         side: r.side,
         name: r.name,
         table: r.pipeTable,
         nominal: r.nominal,
-        diameter: r.pipeTable ? "" : show(sys, "diameter", r.diameter),
+        stored: note ? { table: r.pipeTable, nominal: r.nominal, bore: String(r.diameter), note: renderUnits(note, sys) } : null,
+        diameter: r.pipeTable && !note ? "" : show(sys, "diameter", r.diameter),
         diameterShown: show(sys, "diameter", r.diameter),
         material: r.material,
         materialShown: materialShownFor(r),

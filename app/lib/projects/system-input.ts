@@ -243,6 +243,20 @@ function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
   return `${name}: ${table.name} ${r.nominal} has an inner diameter of ${now} in the catalogue now, but the run was saved with ${stored}, which is used. Save the run again to take the table's bore.`;
 }
 
+/** A run's name in the warnings: its own, or its side's ("A suction run"). */
+const runLabel = (r: PipeRunInput) => r.name || `A ${r.side} run`;
+
+/**
+ * A stored run naming a table or size the catalogue does not list now (old data), in the system warning's words (the
+ * stored bore used), for the editor to show beside the run as stored; null for a listed size or a typed inner diameter.
+ * (A listed size saved with another bore is not one: the editor shows the size, and saving takes the table's bore.)
+ */
+export function storedSizeNote(r: PipeRunInput): string | null {
+  if (!r.pipeTable || !r.nominal) return null;
+  const listed = PIPE_TABLES.find((t) => t.id === r.pipeTable)?.sizes.some((x) => x.nominal === r.nominal);
+  return listed ? null : sizeNotInCatalogue(r, runLabel(r));
+}
+
 /**
  * What the runs as stored say beyond the engine's own warnings, each naming the run and its numbers: a run whose
  * material is not its pipe table's (its roughness is another material's), and an aged roughness below the new one
@@ -251,7 +265,7 @@ function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
 export function runInputWarnings(input: SystemInput): string[] {
   const out: string[] = [];
   input.runs.forEach((r) => {
-    const name = r.name || `A ${r.side} run`;
+    const name = runLabel(r);
     const table = PIPE_TABLES.find((t) => t.id === r.pipeTable);
     const sizeWords = sizeNotInCatalogue(r, name);
     if (sizeWords) out.push(sizeWords);
