@@ -31,9 +31,10 @@ function cells(r: R, units: UnitChoice = SI_UNITS): Record<string, string> {
 
 describe("NPSH margin over the band where NPSHa is at or below zero at every point (default system, 100 °C, suction surface at 0 m)", () => {
   const r = evaluate({ ...defaultSystemInput(), temperatureC: 100, suctionStaticHead: 0 });
-  it("the case: every point's NPSHa below zero, the band's ratios negative (what the old cell showed)", () => {
+  it("the case: every point's NPSHa below zero, no ratio at the source (decision \"npshtruth\"; the old evaluation held negative ones)", () => {
     for (const p of r.npsh.judgedAt!) expect(p.available!).toBeLessThan(0);
-    expect(r.band.every((b) => b.npshMarginRatio != null && b.npshMarginRatio < 0)).toBe(true);
+    expect(r.band.every((b) => b.npshMarginRatio === null && b.npshAvailable! < 0)).toBe(true);
+    expect(r.figures!.npshMarginRatio).toBeNull();
     expect(r.npsh.status).toBe("cavitation-risk");
   });
   it("no ratio: the cell reads the lowest NPSHa and where, in SI and US units", () => {
@@ -41,8 +42,11 @@ describe("NPSH margin over the band where NPSHa is at or below zero at every poi
     expect(si).toMatch(/^NPSHa -0\.\d+ m at least lift, aged pipe \(cavitation-risk\)$/);
     expect(cells(r, US_UNITS)["NPSH margin over the band"]).toMatch(/^NPSHa -0\.\d+ ft at least lift, aged pipe \(cavitation-risk\)$/);
   });
-  it("a selection frozen before the judged points were kept: its band's ratios where NPSHa ≤ 0 are not shown either", () => {
-    const frozen = { ...r, npsh: { ...r.npsh, judgedAt: undefined } } as unknown as R;
+  it("a selection frozen before the judged points were kept, with the negative ratios then computed: not shown either", () => {
+    // NPSHa / NPSHr as the old evaluation froze it where NPSHa ≤ 0 (negative): the table's own guard keeps it out.
+    const oldRatio = <T extends { npshMarginRatio: number | null; npshAvailable?: number | null; npshRequired?: number | null }>(b: T): T => ({ ...b, npshMarginRatio: b.npshAvailable! / b.npshRequired! });
+    const frozen = { ...r, band: r.band.map(oldRatio), figures: oldRatio(r.figures!), npsh: { ...r.npsh, judgedAt: undefined } } as unknown as R;
+    expect(frozen.band.every((b) => b.npshMarginRatio! < 0)).toBe(true);
     expect(cells(frozen)["NPSH margin over the band"]).toMatch(/^NPSHa -0\.\d+ m at least lift, aged pipe \(cavitation-risk\)$/);
   });
   it("the flip: at 20 °C (NPSHa above zero) the ratios over the band are shown", () => {

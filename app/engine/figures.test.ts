@@ -202,3 +202,29 @@ describe("NPSHa at or below zero with NPSHr on the curve: read by NPSHa, as the 
     expect(said(hi)).toMatch(/^NPSHa \S+ m is below NPSHr [\d.]+ m: cavitation risk$/); // NPSHa just above zero
   });
 });
+
+describe("the margin ratio at the source: none where NPSHa ≤ 0, NPSHa given and deciding", () => {
+  // NPSHa = (p_s − p_v)/(ρg) + z_s − h_loss (common practice); NPSHa ≤ 0: the liquid boils at the inlet whatever the pump,
+  // so NPSHa / NPSHr (zero or negative) means nothing (our rule, decision "npshtruth"). Flip found by bisection on the lift.
+  const withNpshr = createPumpCurve({ points: samplePoints() });
+  const at = (z: number) => operatingFigures({ curve: withNpshr, flow: 40 * M3H, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: z, suctionLoss: 0 } });
+  let lo = -20, hi = 0; // NPSHa(lo) ≤ 0 < NPSHa(hi)
+  for (let i = 0; i < 200; i++) { const mid = (lo + hi) / 2; if (at(mid).npsh!.available > 0) hi = mid; else lo = mid; }
+  it("NPSHa at or below zero (at the flip and 1 m further): ratio null, NPSHa kept, status and warning by NPSHa", () => {
+    for (const z of [lo, lo - 1]) {
+      const f = at(z);
+      expect(f.npsh!.required).toBeGreaterThan(0);
+      expect(f.npsh!.available).toBeLessThanOrEqual(0);
+      expect(f.npsh!.marginRatio).toBeNull(); // old code: NPSHa / NPSHr, ≤ 0 (e.g. -0.25 at 1 m further)
+      expect(f.npsh!.status).toBe("cavitation-risk");
+      expect(inSI(f.warnings.find((w) => w.code === "npsh-cavitation")!.message)).toMatch(/^NPSHa -?\d+\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/);
+    }
+  });
+  it("NPSHa just above zero: the ratio NPSHa / NPSHr, positive, decides (below 1: cavitation risk below NPSHr)", () => {
+    const f = at(hi);
+    expect(f.npsh!.available).toBeGreaterThan(0);
+    expect(f.npsh!.marginRatio!).toBeGreaterThan(0);
+    expect(f.npsh!.marginRatio!).toBeCloseTo(f.npsh!.available / f.npsh!.required!, 12);
+    expect(f.npsh!.status).toBe("cavitation-risk");
+  });
+});

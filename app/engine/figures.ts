@@ -91,7 +91,7 @@ export interface OperatingFigures {
     available: number;
     /** m, null when the curve has no NPSHr here */
     required: number | null;
-    /** NPSHa/NPSHr (dimensionless) */
+    /** NPSHa/NPSHr (dimensionless); null without NPSHr (or NPSHr 0) and where NPSHa ≤ 0 (`available` decides there) */
     marginRatio: number | null;
     requiredMargin: number;
     status: NpshStatus;
@@ -116,6 +116,18 @@ export function npshStatus(marginRatio: number | null, requiredMargin: number): 
   requireFinite("marginRatio", marginRatio);
   requirePositive("requiredMargin", requiredMargin);
   return marginRatio < 1 ? "cavitation-risk" : marginRatio < requiredMargin ? "low-margin" : "ok";
+}
+
+/**
+ * The NPSH margin ratio NPSHa / NPSHr, or null where it means nothing: no NPSHr (or NPSHr ≤ 0), or NPSHa at or below zero
+ * (the liquid boils at the inlet whatever the pump: NPSHa alone decides, a cavitation risk; common practice).
+ * @param available NPSHa, m
+ * @param required NPSHr, m, null when the curve gives none
+ */
+export function npshMarginRatio(available: number, required: number | null): number | null {
+  requireFinite("available", available);
+  if (required !== null) requireFinite("required", required);
+  return available > 0 && required !== null && required > 0 ? available / required : null;
 }
 
 /** The largest shaft power found on a curve, and how far along the curve power is known. */
@@ -245,10 +257,11 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     const available = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure,
       density: rho, staticSuctionHead: input.suction.staticSuctionHead, suctionLoss: input.suction.suctionLoss });
     const required = npshrAt(c, flow);
-    const marginRatio = required !== null && required > 0 ? available / required : null;
+    // NPSHa at or below zero: no ratio (NPSHa / NPSHr ≤ 0 means nothing); NPSHa, given beside it, decides alone.
+    const marginRatio = npshMarginRatio(available, required);
     let status: NpshStatus = "unknown";
-    if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
     if (available <= 0) status = "cavitation-risk";
+    else if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
     // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
     if (status === "cavitation-risk")
       warnings.push({ code: "npsh-cavitation", message: available > 0 && required !== null

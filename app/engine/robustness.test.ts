@@ -240,6 +240,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     bisection: [[(x) => E.bisection((t) => t - 1, x, 2, 1e-9), 0, []]],
     explainRanks: [[(x) => E.explainRanks([], x, 1.1), 10, [-1, 2.5]], [(x) => E.explainRanks([], 10, x), 1.1, [0, -1]]],
     overloadCheck: [[(x) => E.overloadCheck(null, x), 1000, [0, -1]]],
+    npshMarginRatio: [[(x) => E.npshMarginRatio(x, 2.5), 3, []], [(x) => E.npshMarginRatio(3, x), 2.5, []]],
     npshStatus: [[(x) => E.npshStatus(x, 1.1), 1.2, []], [(x) => E.npshStatus(1.2, x), 1.1, [0, -1]]],
     catalogueReasons: [[(x) => E.catalogueReasons({ diameter: x, minDiameter: 0.15 }), 0.16, [0, -1]], [(x) => E.catalogueReasons({ diameter: 0.16, minDiameter: x }), 0.15, [0, -1]],
       [(x) => E.catalogueReasons({ speed: x, ratedSpeed: 2900 }), 1450, [0, -1]], [(x) => E.catalogueReasons({ speedRatio: x }), 0.8, [0, -1]], [(x) => E.catalogueReasons({ trimRatio: x }), 0.9, [0, -1]]],

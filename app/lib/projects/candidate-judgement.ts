@@ -8,6 +8,7 @@ import {
   judgeCandidate,
   motorEfficiency,
   npshAvailable,
+  npshMarginRatio,
   npshrAt,
   npshStatus,
   polesForSpeed,
@@ -100,6 +101,7 @@ export type BandPoint = {
   head: number | null;
   efficiency: number | null;
   shaftPower: number | null;
+  /** NPSHa / NPSHr (dimensionless); null without NPSHr and where NPSHa ≤ 0 (engine `npshMarginRatio`; selections frozen before kept one there). */
   npshMarginRatio: number | null;
   /** NPSHa and NPSHr there, m (null without an operating point; NPSHr null where the curve has none); absent in selections frozen before they were kept. */
   npshAvailable?: number | null;
@@ -234,7 +236,7 @@ function pointAt(ctx: Ctx, name: string, which: SystemCase): BandPoint {
   const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
     staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
   return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
-    shaftPower: p != null ? p * k : null, npshMarginRatio: nr != null && nr > 0 ? na / nr : null, npshAvailable: na, npshRequired: nr, reason: null,
+    shaftPower: p != null ? p * k : null, npshMarginRatio: npshMarginRatio(na, nr), npshAvailable: na, npshRequired: nr, reason: null,
     warnings: op.warnings.filter((w) => !ctx.combined.warnings.some((c) => c.code === w.code)).map((w) => w.message) };
 }
 

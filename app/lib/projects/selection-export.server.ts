@@ -12,6 +12,7 @@ import { verdictStagedNpshNote } from "./verdict-staged-npsh";
 import { serviceFactorNote } from "./motor-service-factor";
 import { inSI } from "~/engine/quantityText";
 import { DEFAULT_FLOW_TOLERANCE } from "~/engine";
+import { ratioShown, resultRatiosShown } from "./npsh-ratio";
 
 const row = (xs: unknown[]) => xs;
 
@@ -83,7 +84,7 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
       speed: pump.speed, impellerDiameter: pump.impellerDiameter, points: pump.points,
     },
     adjustment: frozen.adjustment,
-    result: frozen.result,
+    result: resultRatiosShown(frozen.result), // no NPSH margin ratio where NPSHa ≤ 0 (npsh-ratio.ts), as the CSV
     energy: frozen.energy ?? null,
     flowMax: frozen.flowMax,
     currency: selectionCurrency(frozen) || null,
@@ -91,9 +92,9 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
 }
 /**
  * A margin ratio NPSHa / NPSHr as the CSV writes it: blank where NPSHa ≤ 0 (m), where a ratio means nothing and NPSHa
- * decides (a cavitation risk whatever the pump), as every text surface reads it (candidate-judgement.ts `npshOverBand`).
+ * decides (a cavitation risk whatever the pump), as every surface gives it (npsh-ratio.ts; a selection frozen before held one).
  */
-const ratioCell = (ratio: number | null | undefined, available: number | null | undefined) => (available != null && available <= 0 ? null : ratio);
+const ratioCell = ratioShown;
 
 /**
  * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, NPSH at the design

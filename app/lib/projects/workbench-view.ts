@@ -6,6 +6,7 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
 import { verdictStagedNpshNote } from "./verdict-staged-npsh";
+import { resultRatiosShown } from "./npsh-ratio";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
 /**
@@ -39,9 +40,6 @@ export function workbenchView(bench: {
   };
 }
 
-/** NPSHa / NPSHr where NPSHa ≤ 0 means nothing (read by NPSHa): null there, as the selection CSV leaves it blank. */
-const ratioWhere = (ratio: number | null, available: number | null | undefined) => (available != null && available <= 0 ? null : ratio);
-
 /**
  * The read API's view (GET /api/v1/systems/:id, POST …/preview): the workbench view with each candidate's `result.verdictNpsh`,
  * what NPSH over the band says against the verdict on its line (verdict-npsh.ts, as the search API and every page showing the
@@ -60,16 +58,14 @@ export function workbenchApiView(view: WorkbenchView) {
       return {
         ...c,
         result: {
-          ...r,
+          // No NPSH margin ratio where NPSHa ≤ 0 (npsh-ratio.ts): figures, band, judged points.
+          ...resultRatiosShown(r),
           verdictNpsh: verdictNpshNote(r.verdict, r.npsh),
           verdictStart: verdictStartNote(r.verdict, r.stagedStart),
           verdictMotor: verdictMotorNote(r.verdict, r.figures),
           // NPSH at a duty-cycle step where fewer pumps in parallel run (verdict-staged-npsh.ts), on the same line.
           verdictStagedNpsh: verdictStagedNpshNote(r.verdict, c.energy?.cycle),
           stagedStart: r.stagedStart ?? [],
-          figures: r.figures ? { ...r.figures, npshMarginRatio: ratioWhere(r.figures.npshMarginRatio, r.figures.npshAvailable) } : null,
-          band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioWhere(b.npshMarginRatio, b.npshAvailable) })),
-          npsh: { ...r.npsh, ...(r.npsh.judgedAt ? { judgedAt: r.npsh.judgedAt.map((p) => ({ ...p, marginRatio: ratioWhere(p.marginRatio, p.available) })) } : {}) },
         },
       };
     }),

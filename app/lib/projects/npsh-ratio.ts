@@ -1,0 +1,33 @@
+// The NPSH margin ratio NPSHa / NPSHr as every surface gives it: none where NPSHa ≤ 0. There the ratio means nothing
+// (zero or negative) and NPSHa, given beside it, decides: a cavitation risk whatever the pump (common practice; decision
+// "npshtruth"). The evaluation computes no such ratio now (engine `npshMarginRatio`); a selection frozen before it holds
+// the negative ratios then computed, and every reader of a stored result (systems API, selection CSV and JSON) passes it
+// through here. Pure.
+
+/**
+ * A ratio as shown: null where NPSHa is at or below zero, else the ratio as given.
+ * @param ratio NPSHa / NPSHr (dimensionless), null or absent where none
+ * @param available NPSHa at the same point, m (null or absent: not known, the ratio kept)
+ */
+export const ratioShown = (ratio: number | null | undefined, available: number | null | undefined): number | null =>
+  available != null && available <= 0 ? null : (ratio ?? null);
+
+type RatioCarrier = {
+  figures?: { npshMarginRatio?: number | null; npshAvailable?: number | null } | null;
+  band?: { npshMarginRatio?: number | null; npshAvailable?: number | null }[] | null;
+  npsh?: { judgedAt?: { marginRatio: number | null; available: number | null }[] | null } | null;
+};
+
+/**
+ * A candidate's result (live or frozen) with no ratio where NPSHa ≤ 0: the figures at the operating point, the band's
+ * edges and the points NPSH was judged at; everything else as given.
+ * @param r the result (SI)
+ */
+export function resultRatiosShown<T extends RatioCarrier>(r: T): T {
+  return {
+    ...r,
+    ...(r.figures ? { figures: { ...r.figures, npshMarginRatio: ratioShown(r.figures.npshMarginRatio, r.figures.npshAvailable) } } : {}),
+    ...(r.band ? { band: r.band.map((b) => ({ ...b, npshMarginRatio: ratioShown(b.npshMarginRatio, b.npshAvailable) })) } : {}),
+    ...(r.npsh?.judgedAt ? { npsh: { ...r.npsh, judgedAt: r.npsh.judgedAt.map((p) => ({ ...p, marginRatio: ratioShown(p.marginRatio, p.available) })) } } : {}),
+  };
+}
