@@ -8,11 +8,8 @@ import {
   DEFAULT_GRADE,
   DIAMETER_UNITS,
   ELEVATION_UNITS,
-  evaluateCheck,
   FLOW_UNITS,
-  gradeById,
   gradeRule,
-  parseCheckFields,
   photoLimitsText,
   photoProblem,
   POWER_ACCURACY_MAX_PCT,
@@ -30,6 +27,7 @@ import { GaugeInputs } from "./GaugeInputs";
 import { BIG_INPUT, ChoiceSelect, FieldError, inputId, NumberField, UnitSelect, type Errors } from "./inputs";
 import { putQueued, type QueuedCheck } from "./queue";
 import { deviceId, sendWaiting } from "./sync";
+import { checkOnPhone } from "./local-check";
 import { renderUnits, type UnitChoice } from "~/lib/shared/units";
 
 /** Field names as the summary at the top names them. */
@@ -83,26 +81,15 @@ export function CheckForm(props: Props) {
     const data = new FormData(form);
     const raw: Record<string, string> = {};
     for (const [key, entry] of data.entries()) if (typeof entry === "string") raw[key] = entry;
-    const parsed = parseCheckFields(raw, liquid);
-    const found: Record<string, string> = parsed.ok ? {} : { ...parsed.errors };
-    if (!gradeById(raw.gradeId ?? "")) found.gradeId = "Choose a tolerance grade from the table.";
     const files = data.getAll("photos").filter((f): f is File => f instanceof File && f.size > 0);
-    // Each photo's size, their total and count, as the server holds them (photo-limits.ts): never queued to be refused whole.
-    const photos = photoProblem(files);
-    if (photos) found.photos = photos;
-    let local: QueuedCheck["local"] | null = null;
-    if (parsed.ok && !Object.keys(found).length) {
-      try {
-        const result = evaluateCheck(selection.frozen, parsed.readings, raw.gradeId);
-        local = { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head };
-      } catch (e) {
-        found._form = `These readings cannot be worked out: ${renderUnits(e instanceof Error ? e.message : String(e), props.units)}.`;
-      }
-    }
-    if (!local) {
-      setClientErrors(found);
+    // The server's own reading of the fields (a total head at or below zero refused at the discharge reading), then the
+    // check worked out here; photos as the server holds them (photo-limits.ts): never queued to be refused whole.
+    const checked = checkOnPhone(raw, selection.frozen, props.units, photoProblem(files));
+    if (!checked.ok) {
+      setClientErrors(checked.errors);
       return;
     }
+    const local = checked.local;
     setClientErrors({});
     setBusy(true);
     const takenAt = new Date().toISOString();
