@@ -1,11 +1,12 @@
-// The history of a selection's field checks as CSV (SI units in every header), through the one
-// CSV writer. Pure: takes what `checkHistory` returns.
+// The history of a selection's field checks as CSV (SI units in every header; the notes in the app's SI display units,
+// which the header names), through the one CSV writer. Pure: takes what `checkHistory` returns.
 import { toCsv } from "../shared/csv";
 import { problemLine, type DocProblem } from "../projects/stored-doc";
 import type { Readings, Verdict } from "./form";
 import { powerGradeState, powerLimitStates } from "./power-grade";
 import { verdictNote, type CheckResult } from "./result";
 import { inSI } from "~/engine/quantityText";
+import { UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 import type { CheckTimes } from "./taken-at";
 
 type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
@@ -33,6 +34,15 @@ const VERDICT_RULE =
   "a liquid with no curve to hold the pump to, or a measured flow outside the flows the curve is published for that the grade's flow arm does not reach). " +
   "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so.";
 
+/** The quantities a note may carry (verdict-note words: flows, heads, pressures, power, temperature, speed). */
+const NOTE_QUANTITIES: readonly Quantity[] = ["flow", "head", "pressure", "power", "temperature", "speed"];
+
+/**
+ * What the header says of units: the columns in SI named in each header, and the notes (`verdict_note`) in the app's SI
+ * display units (`inSI`: m³/h, kPa, kW…), named from the preset they are rendered with, so the line cannot drift from them.
+ */
+export const UNITS_LINE = `# Columns in SI units, each named in its header (m3s = m³/s, m, pa = Pa, w = W, c = °C; deviations, allowances and efficiencies as fractions). verdict_note writes quantities in the app's SI display units: ${NOTE_QUANTITIES.map((q) => `${q} ${unitLabel(q, UNIT_SYSTEMS.SI[q])}`).join(", ")}.`;
+
 /**
  * One row per check (oldest taken first, as `checksOf` orders them, reversed) after three comment lines naming the selection, the cautions and the verdict rule. A check whose stored
  * record cannot be read has no row (no blank numbers a spreadsheet would sum as zeros): a comment line above the header
@@ -47,7 +57,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
   });
   const lines: unknown[][] = [
     ["# Dutymark field checks", `selection ${h.selection.id}`, h.selection.title, h.selection.projectName],
-    ["# SI units in every header. Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice."],
+    [`${UNITS_LINE} Pressurised systems, rotating equipment and electrical work are for qualified people; follow site rules, local codes and licensed practice.`],
     [VERDICT_RULE],
     ...unreadable,
     [
