@@ -55,7 +55,7 @@ export function stagedDutyCycleEnergy(input: StagedDutyCycleInput): DutyCycleRes
   const runs: DutyCycleResult[] = [];
   for (let k = 1; k <= n; k++) {
     const curve = k === 1 ? one : combinePumps(one, { mode: "parallel", duty: k }).curve;
-    runs.push(dutyCycleEnergy({ ...input, curve, motor: { ...input.motor, rating: rating * k, units: k } }));
+    runs.push(dutyCycleEnergy({ ...input, curve, motor: { ...input.motor, rating: rating * k, units: k }, arrangement: "parallel" }));
   }
   const atStep = (run: DutyCycleResult, i: number) => run.warnings.filter((w) => w.parameter === `profile[${i}]`);
   const meets = (run: DutyCycleResult, i: number) => !NOT_MET.includes(run.steps[i].status);
