@@ -62,6 +62,7 @@ import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qt
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
+import { noSpeedMeets } from "./stepNoSpeed.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -204,38 +205,6 @@ export interface DutyCycleInput {
   noHeadReason?: (flow: number) => string;
   /** How the `motor.units` pumps of the curve share the flow (parallel: each Q/units; series: each Q), for the BEP note at a step (stepPor.ts); absent: one pump. */
   arrangement?: "parallel" | "series";
-}
-
-
-/**
- * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
- * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
- * reach at full speed (`asks`: whose head it is; `pumpGives`: whose curve, one pump or the duty pumps together). Null where
- * none of these holds (the solver's own words then).
- */
-function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string, pumpGives: string): string | null {
-  // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
-  const set = maxSpeed > 1;
-  const top = set ? `${fmtPctLimit(maxSpeed)} speed (the candidate's set speed)` : "full speed (100 %)"; // a limit, as given
-  const upTo = `no speed up to ${fmtPctLimit(maxSpeed)}`;
-  const noOverspeed = `(the drive does not run the pump above ${set ? "the candidate's set speed" : "its full speed"})`;
-  if (q > curve.flowMax * maxSpeed) {
-    const [flow, end] = qtPair("flow", q, curve.flowMax * maxSpeed);
-    return set
-      ? `${flow} is past the curve's end at ${top} (${end} there; ${qt("flow", curve.flowMax)} as published at 100 %): ${upTo} puts it on the curve ${noOverspeed}`
-      : `${flow} is past the curve's end at full speed (${end} as published, 100 %): ${upTo} puts it on the curve ${noOverspeed}`;
-  }
-  const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
-  if (q < lowStart) {
-    const [flow, start] = qtPair("flow", q, lowStart);
-    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPctLimit(minSpeed)}, to 100 %: at ${fmtPctLimit(minSpeed)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
-  }
-  const h1 = q / maxSpeed >= curve.flowMin ? headAt(curve, q / maxSpeed) : null; // at the highest speed (affinity laws)
-  if (h1 === null) return null;
-  const hp = h1 * maxSpeed * maxSpeed;
-  if (!(hp < head)) return null;
-  const [gives, needs] = qtPair("head", hp, head);
-  return `at ${qt("flow", q)} ${pumpGives} ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
 }
 
 /**
