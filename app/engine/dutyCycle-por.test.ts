@@ -46,6 +46,10 @@ describe("fixed speed, throttled: the ratio is the step's flow over the BEP flow
     expect(note(run("fixed-speed", 1.201))).toMatch(/^at 120 % flow the pump runs at 60\.1 m³\/h, 120\.1 % of its BEP flow, 50\.0 m³\/h, for 3000 h a year: right of \(above\) the preferred operating region 70–120 % of BEP flow \(ANSI\/HI 9\.6\.3, from memory\); more NPSH needed/);
     expect(note(run("fixed-speed", 0.25))).toBe("at 25 % flow the pump runs at 12.5 m³/h, 25 % of its BEP flow, 50.0 m³/h, for 3000 h a year: below 50 % of BEP flow, a common lower bound for continuous running where a pump's minimum continuous stable flow typically lies (common practice, from memory: check the maker's minimum flow), and outside the preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3, from memory); expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)");
   });
+  it("a candidate set to 80 % speed and run fixed: the curve is as run, its BEP flow not scaled again (69.9 %, not 87.4 %)", () => {
+    const r = dutyCycleEnergy({ curve, systemHead: single, designFlow: QB, mode: "fixed-speed", fixedSpeedRatio: 0.8, profile: [{ flowFraction: 0.699, hours: 3000 }], density: 1000, motor: MOTOR, driveEfficiency: 0.97 });
+    expect(note(r)).toMatch(/^at 70 % flow the pump runs at 34\.9 m³\/h, 69\.9 % of its BEP flow, 50\.0 m³\/h,/);
+  });
   it("a step of 0 h, or at 0 % flow, says nothing; a note is not a failure (the step met, the cycle complete)", () => {
     const r = dutyCycleEnergy({ curve, systemHead: single, designFlow: QB, mode: "fixed-speed", profile: [{ flowFraction: 0.25, hours: 0 }, { flowFraction: 0, hours: 500 }, { flowFraction: 0.25, hours: 0.01 }], density: 1000, motor: MOTOR, driveEfficiency: null });
     expect(porCodes(r)).toEqual([["step-below-min-flow", "profile[2]"]]);
@@ -94,13 +98,13 @@ describe("pumps in parallel staged by demand: each running pump's share", () => 
     expect(note(staged("fixed-speed", 1.201))).toMatch(/^at 120 % flow each of the 2 pumps running takes its share, 60\.1 m³\/h of the step's 120 m³\/h, 120\.1 % of its BEP flow, 50\.0 m³\/h, for 3000 h a year: right of \(above\)/);
     expect(note(staged("fixed-speed", 0.2))).toMatch(/^at 20 % flow the one pump running takes the step's whole 20\.0 m³\/h, 40 % of its BEP flow, 50\.0 m³\/h, for 3000 h a year: below 50 % of BEP flow/);
   });
-  it.each([[0.7, 1], [1.2, 2]] as const)("system curve: the flip at %s of one pump's BEP flow with %s running (hand-solved speed)", (ratio, k) => {
+  it.each([[0.7, 1, null, "step-outside-por"], [1.2, 2, null, "step-outside-por"], [0.5, 1, "step-outside-por", "step-below-min-flow"]] as const)("system curve: the flip at %s of one pump's BEP flow with %s running (hand-solved speed)", (ratio, k, inner, outer) => {
     const { f } = vfdFlip(ratio, k, K / 4, QD);
     const fIn = ratio === 1.2 ? f * (1 - 1e-4) : f * (1 + 1e-4), fOut = ratio === 1.2 ? f * (1 + 1e-4) : f * (1 - 1e-4);
     expect(staged("system-curve", fIn).steps[0].pumpsRunning).toBe(k);
-    expect(porCodes(staged("system-curve", fIn))).toEqual([]);
+    expect(porCodes(staged("system-curve", fIn))).toEqual(inner ? [[inner, "profile[0]"]] : []);
     expect(staged("system-curve", fOut).steps[0].pumpsRunning).toBe(k);
-    expect(porCodes(staged("system-curve", fOut))).toEqual([["step-outside-por", "profile[0]"]]);
+    expect(porCodes(staged("system-curve", fOut))).toEqual([[outer, "profile[0]"]]);
   });
 });
 
