@@ -61,6 +61,8 @@ import { G0 } from "./units.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals } from "./cycleTotals.ts";
+import { stepPorWarning } from "./stepPor.ts";
+import { noSpeedMeets } from "./stepNoSpeed.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -201,38 +203,8 @@ export interface DutyCycleInput {
    * the step names both together).
    */
   noHeadReason?: (flow: number) => string;
-}
-
-
-/**
- * Why no drive speed from the lowest to full meets a VFD step, with the pump's numbers where it falls short: a flow past
- * the curve's end at full speed, a flow before the curve's first point at the lowest speed, or a head the pump does not
- * reach at full speed (`asks`: whose head it is; `pumpGives`: whose curve, one pump or the duty pumps together). Null where
- * none of these holds (the solver's own words then).
- */
-function noSpeedMeets(curve: PumpCurve, q: number, head: number, minSpeed: number, maxSpeed: number, asks: string, pumpGives: string): string | null {
-  // The drive's highest speed: the curve's full speed, or the candidate's set speed above it (maxSpeedRatio).
-  const set = maxSpeed > 1;
-  const top = set ? `${fmtPctLimit(maxSpeed)} speed (the candidate's set speed)` : "full speed (100 %)"; // a limit, as given
-  const upTo = `no speed up to ${fmtPctLimit(maxSpeed)}`;
-  const noOverspeed = `(the drive does not run the pump above ${set ? "the candidate's set speed" : "its full speed"})`;
-  if (q > curve.flowMax * maxSpeed) {
-    const [flow, end] = qtPair("flow", q, curve.flowMax * maxSpeed);
-    return set
-      ? `${flow} is past the curve's end at ${top} (${end} there; ${qt("flow", curve.flowMax)} as published at 100 %): ${upTo} puts it on the curve ${noOverspeed}`
-      : `${flow} is past the curve's end at full speed (${end} as published, 100 %): ${upTo} puts it on the curve ${noOverspeed}`;
-  }
-  const lowStart = curve.flowMin * minSpeed; // the first point on the lowest-speed curve (Q ∝ N)
-  if (q < lowStart) {
-    const [flow, start] = qtPair("flow", q, lowStart);
-    return `${flow} lies before the curve's first point at every speed from the drive's lowest, ${fmtPctLimit(minSpeed)}, to 100 %: at ${fmtPctLimit(minSpeed)} speed the curve starts at ${start} (${qt("flow", curve.flowMin)} as published at full speed); below it the curve gives no data`;
-  }
-  const h1 = q / maxSpeed >= curve.flowMin ? headAt(curve, q / maxSpeed) : null; // at the highest speed (affinity laws)
-  if (h1 === null) return null;
-  const hp = h1 * maxSpeed * maxSpeed;
-  if (!(hp < head)) return null;
-  const [gives, needs] = qtPair("head", hp, head);
-  return `at ${qt("flow", q)} ${pumpGives} ${gives} at ${top}, ${fmtPctExact(1 - hp / head)} below the ${needs} ${asks} there: ${upTo} meets this step ${noOverspeed}`;
+  /** How the `motor.units` pumps of the curve share the flow (parallel: each Q/units; series: each Q), for the BEP note at a step (stepPor.ts); absent: one pump. */
+  arrangement?: "parallel" | "series";
 }
 
 /**
@@ -258,6 +230,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   // Equal motors sharing the load (pumps in parallel or series; absent: 1): the motor notes are each one's.
   const units = input.motor.units === undefined ? 1 : requirePositive("motor.units", input.motor.units);
   if (!Number.isInteger(units)) throw new EngineInputError("motor.units", "is a whole number of motors");
+  if (input.arrangement !== undefined && input.arrangement !== "parallel" && input.arrangement !== "series") throw new EngineInputError("arrangement", "must be 'parallel' or 'series' (or absent: one pump)");
   const theMotor = units === 1 ? "the motor" : `each of the ${units} motors`;
   const pumpGives = units === 1 ? "the pump gives" : `the ${units} pumps together give`; // the curve is theirs together
   const etaD = input.driveEfficiency === null || input.driveEfficiency === undefined ? null : requirePositive("driveEfficiency", input.driveEfficiency);
@@ -392,6 +365,9 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     // memory of NEMA MG 1's service-factor guidance: running there shortens insulation life). A note, not a failure.
     else if (!limitCovers(rating, shaft))
       warnings.push({ code: "motor-service-factor-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [1, sf], Math.max(1, sfDecimals))} load, above its rating and within rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [rating / units])} is above the ${qtLimit("power", rating / units, [shaft / units])} rating for ${Number(s.hours.toFixed(2))} h a year; a service factor is margin for occasional overload, not for continuous running (common practice): a motor of the next rating up is the usual choice` });
+    // Off the BEP for the step's hours (stepPor.ts): at a drive's speed the BEP flow scales by it; a fixed-speed curve is as run.
+    const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement });
+    if (por) warnings.push(por);
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));

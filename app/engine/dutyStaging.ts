@@ -6,9 +6,12 @@
  * meets the step's flow under the cycle's control mode (fixed speed throttled, or a drive on constant or proportional
  * pressure or the system curve), each pump on its own share Q/k; one more is started only where fewer cannot meet it.
  * A step k pumps "meet" is one dutyCycleEnergy does not call not met (computed, held at the lowest on-curve speed,
- * no power data) and where the k motors are not overloaded (no `motor-overload-step`): a pump is not left alone past its
- * motor's rating × service factor while another duty pump stands ready (assumed, common practice). Where every k meets
- * the flow only with its motors overloaded, the first k that meets it is kept, its overload warned. A step needing no
+ * no power data). Among those the motors decide: the fewest k whose motors run within their rating (no
+ * `motor-service-factor-step` or `motor-overload-step`); else the fewest within rating × service factor, the note at the
+ * step saying no number runs within rating; else the fewest that meet it, overloaded, its warning saying no number runs
+ * within rating × service factor. A service factor is margin for occasional overload, not for continuous running, so k
+ * pumps are not left running into it while k + 1 would run within rating (common practice, from memory of NEMA MG 1's
+ * service-factor guidance; the energy is then the k + 1 pumps'). A step needing no
  * pump head (`gravity-flow`) or at 0 % flow (`no-demand`) runs none (0 of N). A step no k ≤ N meets reads as with all N running, its numbers as
  * dutyCycleEnergy gives them then (not met, as without staging). Standby pumps never run.
  * Each running pump has its own motor (and drive) on one pump's load: motor and drive losses per motor as in
@@ -24,7 +27,7 @@ import { cycleTotals } from "./cycleTotals.ts";
 
 /** The rule in words, for every surface that shows a staged cycle (common practice, from memory). */
 export const PARALLEL_STAGING_RULE =
-  "Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it (common practice, from memory); standby pumps never run";
+  "Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it with their motors within rating (else within rating × service factor, else overloaded, said at the step; common practice, from memory); standby pumps never run";
 
 /** Steps dutyCycleEnergy reads as not met: the flow or head is out of reach of the pumps running (or of the control curve). */
 const NOT_MET: readonly string[] = ["beyond-curve", "control-below-system", "below-speed-range"];
@@ -55,17 +58,28 @@ export function stagedDutyCycleEnergy(input: StagedDutyCycleInput): DutyCycleRes
   const runs: DutyCycleResult[] = [];
   for (let k = 1; k <= n; k++) {
     const curve = k === 1 ? one : combinePumps(one, { mode: "parallel", duty: k }).curve;
-    runs.push(dutyCycleEnergy({ ...input, curve, motor: { ...input.motor, rating: rating * k, units: k } }));
+    runs.push(dutyCycleEnergy({ ...input, curve, motor: { ...input.motor, rating: rating * k, units: k }, arrangement: "parallel" }));
   }
   const atStep = (run: DutyCycleResult, i: number) => run.warnings.filter((w) => w.parameter === `profile[${i}]`);
   const meets = (run: DutyCycleResult, i: number) => !NOT_MET.includes(run.steps[i].status);
   const overloaded = (run: DutyCycleResult, i: number) => atStep(run, i).some((w) => w.code === "motor-overload-step");
+  const intoSf = (run: DutyCycleResult, i: number) => atStep(run, i).some((w) => w.code === "motor-service-factor-step");
+  const why = "(staged: the fewest within rating first; common practice)";
   const warnings: EngineWarning[] = [];
   const steps = runs[0].steps.map((_, i): StepResult => {
-    const run = runs.find((r) => meets(r, i) && !overloaded(r, i)) ?? runs.find((r) => meets(r, i)) ?? runs[n - 1];
+    // The fewest within rating; else within rating × service factor; else the fewest that meet it (module comment).
+    const withinRating = runs.find((r) => meets(r, i) && !overloaded(r, i) && !intoSf(r, i));
+    const withinSf = withinRating ?? runs.find((r) => meets(r, i) && !overloaded(r, i));
+    const run = withinSf ?? runs.find((r) => meets(r, i)) ?? runs[n - 1];
     const k = runs.indexOf(run) + 1;
     const s = run.steps[i];
-    warnings.push(...atStep(run, i));
+    // With more than one duty pump to choose from, a fallback says why no other number of pumps was started.
+    const fellBack = n > 1 && meets(run, i) && !withinRating;
+    warnings.push(...atStep(run, i).map((w) =>
+      !fellBack ? w
+      : w.code === "motor-service-factor-step" ? { ...w, message: `${w.message}; no number of the ${n} duty pumps meets this step within its motors' rating, so the fewest within rating × service factor run ${why}` }
+      : w.code === "motor-overload-step" && !withinSf ? { ...w, message: `${w.message}; no number of the ${n} duty pumps meets this step within rating × service factor, so the fewest that meet it run, overloaded ${why}` }
+      : w));
     const running = s.status === "gravity-flow" || s.status === "no-demand" ? 0 : k;
     return { ...s, pumpsRunning: running, dutyPumps: n, pumpShaftPower: s.shaftPower == null ? null : running === 0 ? 0 : s.shaftPower / k };
   });

@@ -343,6 +343,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     ["motorEfficiency ieClass", () => E.motorEfficiency(7500, "IE5" as never)],
     ["motorEfficiency poles", () => E.motorEfficiency(7500, "IE3", 6 as never)],
     ["dutyCycleEnergy mode", () => E.dutyCycleEnergy(dc({ mode: "vfd" as never }))],
+    ["dutyCycleEnergy arrangement (the BEP note's words)", () => E.dutyCycleEnergy(dc({ arrangement: "tandem" as never }))],
     ["dutyCycleEnergy VFD mode without a drive", () => E.dutyCycleEnergy(dc({ mode: "constant-pressure", driveEfficiency: null }))],
     ["toSI quantity", () => E.toSI("Flow" as never, "m3/h", 1)],
     ["toSI unit", () => E.toSI("flow", "m3/hr", 1)],

@@ -20,7 +20,7 @@ const PUMP_CSV = [
   "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct",
   ...[[5, 21.8, 30], [10, 21.5, 45], [20, 20, 62], [30, 17.5, 72], [36, 15.5, 74], [45, 12, 70], [55, 7, 60]].map(([q, h, e]) => `Stager 50,end-suction,DN50,2900,200,${q},${h},${e}`),
 ].join("\n");
-const RULE = "Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it (common practice, from memory); standby pumps never run";
+const RULE = "Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it with their motors within rating (else within rating × service factor, else overloaded, said at the step; common practice, from memory); standby pumps never run";
 const base = defaultSystemInput();
 const input: SystemInput = { ...base, duty: { flow: 72 / 3600, head: 12 }, energy: { ...base.energy!, profile: [{ flowFraction: 0.25, hours: 3000 }, { flowFraction: 0.9, hours: 1000 }] } };
 const got = {} as Record<"pair" | "single", { system: string; pages: SelectionPages }>;

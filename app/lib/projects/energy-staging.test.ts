@@ -44,7 +44,7 @@ describe("two identical pumps in parallel (+1 standby), fixed speed throttled", 
 
   it("the rule is one of the cycle's assumptions", () => {
     expect(pair.assumptions).toContain(`${PARALLEL_STAGING_RULE}.`);
-    expect(PARALLEL_STAGING_RULE).toBe("Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it (common practice, from memory); standby pumps never run");
+    expect(PARALLEL_STAGING_RULE).toBe("Pumps in parallel staged by demand: each step runs the fewest duty pumps that meet it with their motors within rating (else within rating × service factor, else overloaded, said at the step; common practice, from memory); standby pumps never run");
     expect(alone.assumptions.join(" ")).not.toMatch(/staged by demand/);
   });
 });

@@ -235,7 +235,7 @@ export function candidateEnergy(
         // One pump alone at the larger share Q/k needs more NPSH: judged at each step with fewer pumps running.
         if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null)
           out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin }));
-      } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps } });
+      } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, arrangement: c.adjustment.arrangement === "series" && pumps > 1 ? "series" : undefined });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);
       // Blank hours and tariff are stored as 0 (system-form.ts), and 0 h or 0 per kWh is read as "not given", as the

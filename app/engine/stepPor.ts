@@ -1,0 +1,79 @@
+/**
+ * A duty-cycle step judged against the pump's best efficiency point (BEP): where a step with hours runs outside the
+ * preferred operating region (POR, 70–120 % of BEP flow: ANSI/HI 9.6.3, from memory; pumpCurve.ts `POR_FRACTION`), a note
+ * at the step with its flow as a percentage of the BEP flow at the speed it runs at, its hours and the rule. Below
+ * `STEP_MIN_FLOW_FRACTION` (50 % of BEP flow) the wording is stronger: a common lower bound for continuous running, where
+ * a typical minimum continuous stable flow lies (common practice, from memory: check the maker's minimum flow).
+ * A note, never a failure: hours off the BEP wear a pump (recirculation, heating, vibration, bearing and seal life), they
+ * do not stop it meeting the step.
+ * The BEP flow at a speed ratio n follows the affinity laws: Q_BEP(n) = Q_BEP × n (Q ∝ N), so a drive that slows the pump
+ * on a friction-only system keeps it near its BEP while a throttled fixed-speed pump moves left of it.
+ * Pumps in parallel: each running pump takes its share Q/k of the step's flow Q, and the ratio is one pump's (the curve of
+ * k pumps has k × one pump's BEP flow, combinePumps keeping efficiency); in series each pump passes the whole Q.
+ * A curve with no BEP (`bep-not-published`) gives no note: the design point already says why. Units: SI (m³/s, h).
+ */
+import type { EngineWarning } from "./errors.ts";
+import { POR_FRACTION, type PumpCurve } from "./pumpCurve.ts";
+import { fmtPct, fmtPctExact, qtPair } from "./quantityText.ts";
+
+/** Below this fraction of BEP flow: a common lower bound for continuous running (common practice, from memory). */
+export const STEP_MIN_FLOW_FRACTION = 0.5;
+
+/** The rule in words, as each note states it. */
+export const STEP_POR_RULE = `preferred operating region ${POR_FRACTION.min * 100}–${POR_FRACTION.max * 100} % of BEP flow (ANSI/HI 9.6.3, from memory)`;
+export const STEP_MIN_FLOW_RULE = `below ${STEP_MIN_FLOW_FRACTION * 100} % of BEP flow, a common lower bound for continuous running where a pump's minimum continuous stable flow typically lies (common practice, from memory: check the maker's minimum flow)`;
+
+export interface StepPorInput {
+  /** The curve the cycle runs on (all pumps counted in it), at the speed its speed ratios are fractions of. */
+  curve: PumpCurve;
+  /** The step's index in the profile (the note's `parameter`, "profile[i]"). */
+  index: number;
+  /** The step's flow as a fraction of the design flow, and its hours a year. */
+  flowFraction: number;
+  hours: number;
+  /** The step's flow through the curve, m³/s. */
+  flow: number;
+  /** The speed ratio the BEP flow scales with (a drive's step speed; 1 at fixed speed, where the curve is as run). */
+  speed: number;
+  /** Whether the step runs on a drive (its speed named in the note). */
+  vfd: boolean;
+  /** Pumps counted in the curve (count, ≥ 1). */
+  units: number;
+  /** How they share the flow: in parallel each takes Q/units, in series each passes Q; absent with one pump. */
+  arrangement?: "parallel" | "series";
+}
+
+/**
+ * The note at a step that runs outside the POR, or null: inside it (70–120 % inclusive, as the design point's `inPor`),
+ * 0 h a year, no flow, or no BEP on the curve.
+ * @param input see {@link StepPorInput} (SI: m³/s, h; ratios dimensionless)
+ */
+export function stepPorWarning(input: StepPorInput): EngineWarning | null {
+  const { curve, flow, speed, hours, units } = input;
+  const bep = curve.bep;
+  if (!bep || !(hours > 0) || !(flow > 0) || !(speed > 0)) return null;
+  // One pump's flow and BEP flow at this speed: in parallel the curve's are the pumps' together (k × one's).
+  const per = input.arrangement === "parallel" ? units : 1;
+  const share = flow / per;
+  const bepFlow = (bep.flow / per) * speed; // affinity laws: Q_BEP ∝ N
+  const ratio = share / bepFlow;
+  if (ratio >= POR_FRACTION.min && ratio <= POR_FRACTION.max) return null;
+  const low = ratio < STEP_MIN_FLOW_FRACTION;
+  const pct = fmtPctExact(ratio, [POR_FRACTION.min, POR_FRACTION.max, STEP_MIN_FLOW_FRACTION], 0);
+  const [q, qb] = qtPair("flow", share, bepFlow);
+  const bepWords = input.vfd ? `its BEP flow at ${fmtPct(speed)} speed, ${qb} (${qtPair("flow", bep.flow / per, share)[0]} at the curve's speed × ${fmtPct(speed)}, affinity laws)` : `its BEP flow, ${qb}`;
+  const who =
+    input.arrangement === "parallel" && units > 1 ? `each of the ${units} pumps running takes its share, ${q} of the step's ${qtPair("flow", flow, share)[0]}, ${pct} of ${bepWords}`
+    : input.arrangement === "parallel" ? `the one pump running takes the step's whole ${q}, ${pct} of ${bepWords}`
+    : input.arrangement === "series" && units > 1 ? `each of the ${units} pumps in series passes the step's ${q}, ${pct} of ${bepWords}`
+    : units > 1 ? `the ${units} pumps together run at ${q}, ${pct} of ${bepWords.replace(/^its /, "their ")}`
+    : `the pump runs at ${q}, ${pct} of ${bepWords}`;
+  const head = `at ${Math.round(input.flowFraction * 100)} % flow ${who}, for ${Number(hours.toFixed(2))} h a year`;
+  const parameter = `profile[${input.index}]`;
+  if (low) {
+    return { code: "step-below-min-flow", parameter, message: `${head}: ${STEP_MIN_FLOW_RULE}, and outside the ${STEP_POR_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)` };
+  }
+  const side = ratio < POR_FRACTION.min ? "left of (below)" : "right of (above)";
+  const why = ratio < POR_FRACTION.min ? "more vibration and radial load, shorter bearing and seal life the longer it runs there" : "more NPSH needed, more vibration and radial load, shorter bearing and seal life the longer it runs there";
+  return { code: "step-outside-por", parameter, message: `${head}: ${side} the ${STEP_POR_RULE}; ${why} (a note, not a failure)` };
+}
