@@ -98,9 +98,9 @@ export function methodLines(f: FrozenSelection, units: UnitChoice): string[] {
 
 export function ReportMethods({ f, unitSystem }: { f: FrozenSelection; unitSystem: UnitChoice }) {
   return (
-    <section className="panel break-inside-avoid text-sm">
+    <section className="panel break-inside-avoid text-sm print:text-xs">
       <h2 className="font-semibold">Methods and assumptions</h2>
-      <ul className="mt-2 list-disc space-y-1 pl-5">
+      <ul className="mt-2 list-disc space-y-1 pl-5 print:space-y-0.5">
         {methodLines(f, unitSystem).map((l) => (
           <li key={l}>{l}</li>
         ))}

@@ -10,6 +10,7 @@ import { renderToStaticMarkup } from "react-dom/server";
 import Papa from "papaparse";
 import { CandidateEnergyPanel } from "./CandidateEnergy";
 import { SelectionEnergy } from "./SelectionEnergy";
+import { cycleNoteLines } from "./cycle-notes";
 import { fixtureEnergy } from "~/lib/projects/energy-fixture";
 import { candidateEnergy } from "~/lib/projects/energy";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, fluidOf, systemSpec } from "~/lib/projects/hydraulics";
@@ -47,10 +48,23 @@ describe("one pump, fixed speed: the note at its step on every surface", () => {
     expect(p).toMatch(/▲ at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: below 50 % of BEP flow, a common lower bound for continuous running .*check the maker's minimum flow\), and outside the preferred operating region 70–120 % of BEP flow \(ANSI\/HI 9\.6\.3, from memory\)/);
     expect(p).toMatch(/▲ at 69 % flow the pump runs at [\d.]+ m³\/h, 69 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: left of \(below\) the preferred operating region/);
     expect(p).not.toMatch(/at (71|100) % flow the pump runs at/);
+    // The printed report's notes (no step table on paper): the steps off the BEP on one line, the rule said once, so a
+    // cycle with several such steps keeps the report to its two pages (e2e/report-print.spec.ts); the screen report's
+    // step table keeps each note in full.
+    const lines = cycleNoteLines(e.cycle!);
+    expect(lines).toEqual([
+      "Steps outside the preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3, from memory), each pump's flow as a share of its BEP flow at its speed: " +
+        "25 % flow, 2000 h at 25 %*; 69 % flow, 2000 h at 69 % (* below 50 %, a common lower bound for continuous running, from memory — check the maker's " +
+        "minimum flow: recirculation, heating, vibration). Notes, not failures.",
+    ]);
     const printed = report(e);
-    expect(printed).toMatch(/Step at 25 % flow, 2000 h: at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow/);
-    expect(printed).toMatch(/Step at 69 % flow, 2000 h: at 69 % flow the pump runs at [\d.]+ m³\/h, 69 % of its BEP flow/);
+    expect(printed).toContain(lines[0]);
+    expect(printed).toMatch(/▲ at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow/);
+    expect(printed).toMatch(/▲ at 69 % flow the pump runs at [\d.]+ m³\/h, 69 % of its BEP flow/);
     expect(printed).not.toMatch(/Step at (71|100) % flow, 2000 h: at/);
+    // Inside the POR only by the digits: 69.96 % reads "69.96 %", never "70 %" beside the rule's 70 % (quantityText fmtPctExact).
+    const edge = fixtureEnergy(steps([0.6996]));
+    expect(cycleNoteLines(edge.cycle!)[0]).toMatch(/: 70 % flow, 2000 h at 69\.96 %\. Notes, not failures\.$/); // the step named by its share of the duty flow, as every step is
     const csv = csvSteps(e);
     expect(csv[0]).toMatch(/^at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: below 50 % of BEP flow/);
     expect(csv[1]).toMatch(/^at 69 % flow the pump runs at [\d.]+ m³\/h, 69 % of its BEP flow/);

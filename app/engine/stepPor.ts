@@ -43,12 +43,18 @@ export interface StepPorInput {
   arrangement?: "parallel" | "series";
 }
 
+/** A step's note with the ratio it states: one pump's flow / its BEP flow at the speed it runs at (dimensionless). */
+export type StepPorWarning = EngineWarning & { bepRatio: number };
+
+/** The codes of the notes `stepPorWarning` gives. */
+export const STEP_POR_CODES = ["step-outside-por", "step-below-min-flow"] as const;
+
 /**
  * The note at a step that runs outside the POR, or null: inside it (70–120 % inclusive, as the design point's `inPor`),
  * 0 h a year, no flow, or no BEP on the curve.
  * @param input see {@link StepPorInput} (SI: m³/s, h; ratios dimensionless)
  */
-export function stepPorWarning(input: StepPorInput): EngineWarning | null {
+export function stepPorWarning(input: StepPorInput): StepPorWarning | null {
   const { curve, flow, speed, hours, units } = input;
   const bep = curve.bep;
   if (!bep || !(hours > 0) || !(flow > 0) || !(speed > 0)) return null;
@@ -71,9 +77,9 @@ export function stepPorWarning(input: StepPorInput): EngineWarning | null {
   const head = `at ${Math.round(input.flowFraction * 100)} % flow ${who}, for ${Number(hours.toFixed(2))} h a year`;
   const parameter = `profile[${input.index}]`;
   if (low) {
-    return { code: "step-below-min-flow", parameter, message: `${head}: ${STEP_MIN_FLOW_RULE}, and outside the ${STEP_POR_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)` };
+    return { code: "step-below-min-flow", parameter, bepRatio: ratio, message: `${head}: ${STEP_MIN_FLOW_RULE}, and outside the ${STEP_POR_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)` };
   }
   const side = ratio < POR_FRACTION.min ? "left of (below)" : "right of (above)";
   const why = ratio < POR_FRACTION.min ? "more vibration and radial load, shorter bearing and seal life the longer it runs there" : "more NPSH needed, more vibration and radial load, shorter bearing and seal life the longer it runs there";
-  return { code: "step-outside-por", parameter, message: `${head}: ${side} the ${STEP_POR_RULE}; ${why} (a note, not a failure)` };
+  return { code: "step-outside-por", parameter, bepRatio: ratio, message: `${head}: ${side} the ${STEP_POR_RULE}; ${why} (a note, not a failure)` };
 }
