@@ -57,7 +57,7 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
       <h3 className="font-semibold">GET /api/v1/systems/:id/search[?method=direct&amp;method=trim&amp;method=speed][&amp;arrangement=parallel&amp;pumps=2&amp;standby=1][&amp;page=N]</h3>
       <p className="text-sm text-slate-700">
         Pumps from the libraries open to your workspace that meet the system's stored duty, ranked, {pageRows} a page:{" "}
-        <code>{"{ duty, message, stats, hidden, catalogueFilter, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
+        <code>{"{ duty, message, stats, npshaAtDuty, npshaNote, hidden, catalogueFilter, paging, links, results: [...] }"}</code>, paged as the <a href="#paging">lists above</a>.
         The search keeps the {judged} best distinct curves at most, so <code>paging.total</code> is at most {judged}; a page is a
         slice of one ranking, so <code>rank</code> runs on across pages. A pump whose verdict is outside the catalogue is hidden
         and fills no place: the search judges on down the ranking until {judged} are kept, the ranking ends or {SEARCH_FILL_JUDGED} are
@@ -66,7 +66,13 @@ export function SystemsApiDocs({ Code, pageRows, judged }: { Code: (p: { childre
         <code>{"{ judged, atMost, kept, places, outsideCatalogue, cut, message }"}</code> says whether the list was cut (fewer than{" "}
         {judged} kept while pumps further down the ranking were left unjudged), with <code>message</code> saying so and why, else null.
         Without <code>page</code> the answer is the first {pageRows} results, as before paging. <code>stats</code> counts the curves searched, <code>rejectedByEnvelope</code> (out of their range),{" "}
-        <code>rejectedByNpsh</code> (NPSHr at the duty above the NPSHa there) and <code>matched</code>. Without a duty,{" "}
+        <code>rejectedByNpsh</code> (left out for NPSH at the duty: NPSHa / NPSHr there below 1, i.e. NPSHr above NPSHa where
+        NPSHa is above zero; where NPSHa at the duty is at or below zero the search judges it as zero, so every pump with an NPSHr
+        there is left out whatever its value) and <code>matched</code>. <code>npshaAtDuty</code> is NPSHa at the duty flow in m,
+        the true value (below zero where the suction cannot give any; null without a duty); <code>npshaNote</code>, where it is at
+        or below zero, says that no pump can run there without cavitating, whatever its NPSHr, with NPSHa and the pumps left out
+        for it (a pump without an NPSHr at the duty is not ruled out by it and is listed, but cavitates there too), the same
+        words as the search page; else null. Without a duty,{" "}
         <code>results</code> is empty and <code>message</code> says why; an unknown <code>method</code> is a 400.
         For a custom liquid, <code>liquidSearch</code> says how the water curves were searched (null for water): per pump speed
         in <code>groups[]</code>, <code>{"{ speed, sets, status, b, factors { flow, head, efficiency }, waterDuty { flow, head } }"}</code>.

@@ -2,7 +2,8 @@
 // reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
 // product concludes at the edges"). Pure; used by CandidateTable in ./CandidateTable.tsx and the search page's rows.
 import { POR_FRACTION } from "~/engine";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { marginRatioText } from "~/lib/projects/npsh-ratio";
 import type { NpshJudgement } from "~/lib/projects/candidate-judgement";
 
 /**
@@ -44,13 +45,12 @@ export function npshPairText(units: UnitChoice, available: number, required: num
 }
 
 /**
- * An NPSH margin ratio NPSHa / NPSHr that never reads as 1 (cavitation) or the wanted ratio it is judged against ("1.0996", not "1.10").
+ * An NPSH margin ratio NPSHa / NPSHr that never reads as 1 (cavitation) or the wanted ratio it is judged against ("1.0996",
+ * not "1.10"); above zero and below 0.01, "< 0.01" (npsh-ratio.ts `marginRatioText`, the verdict's qualifier's too).
  * @param ratio NPSHa / NPSHr (dimensionless)
  * @param requiredMargin the wanted ratio (dimensionless; absent in selections frozen before it was kept: then only 1)
  */
-export function npshMarginText(ratio: number | null | undefined, requiredMargin: number | null | undefined): string {
-  return fmtNumExact(ratio, [1, requiredMargin], 2);
-}
+export const npshMarginText = marginRatioText;
 
 /**
  * Where the NPSH status over the band is decided: "lowest 0.96 at least lift, aged pipe", or where NPSHa at or below

@@ -20,7 +20,7 @@ const METHODS = ["direct", "trim", "speed"] as const;
 const SearchQuery = v.object({ method: v.array(v.string()), page: QueryId, arrangement: v.optional(v.string()), pumps: v.optional(v.string()), standby: v.optional(v.string()) });
 
 // GET /api/v1/systems/:id/search[?method=direct&method=trim&method=speed][&arrangement=parallel&pumps=2&standby=1][&page=N] — pumps that meet the
-// system's stored duty, ranked, SEARCH_SHOWN a page: { units, system, duty, message, stats, paging, links, results }.
+// system's stored duty, ranked, SEARCH_SHOWN a page: { units, system, duty, message, stats, npshaAtDuty, npshaNote, paging, links, results }.
 // SI units throughout.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const c = await requireApi(request, "project.read");

@@ -16,7 +16,7 @@ import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { verdictNpshNote } from "~/lib/projects/verdict-npsh";
 import { verdictStartNote } from "~/lib/projects/verdict-start";
-import { npshLeftOutText } from "~/components/search-npsh";
+import { npshaAtDutyNote, npshLeftOutText } from "~/lib/projects/search-npsha";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
@@ -70,7 +70,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     stats: res.stats,
     // The arrangement searched: each pump ranked at its share of the duty, each verdict the arrangement's (search-arrangement.ts).
     arrangement: { ...res.arrangement, words: arrangementWords(res.arrangement) },
-    npshaAtDuty: res.npshaAtDuty,
+    // Pumps left out for NPSH at the duty, and, whenever NPSHa there is at or below zero, the note saying so with its number (search-npsha.ts).
+    npshLeftOut: res.stats?.rejectedByNpsh ? npshLeftOutText(res.stats.rejectedByNpsh, res.npshaAtDuty) : null,
+    npshaNote: npshaAtDutyNote(res.npshaAtDuty, res.stats?.rejectedByNpsh ?? 0),
     // A custom liquid: searched at the equivalent water duty (ANSI/HI 9.6.7) where the method applies, each verdict on the liquid.
     customLiquid: res.system.input.fluid.kind === "custom" ? res.system.input.fluid.name || "the custom liquid" : null,
     liquidSearch: res.liquidSearch ? { message: res.liquidSearch.message, rule: res.liquidSearch.rule, ranksOnLiquid: res.liquidSearch.ranksOnLiquid } : null,
@@ -232,7 +234,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
       {d.stats ? (
         <p className="text-xs text-slate-600" data-testid="search-stats">
           {d.stats.searched} curves searched · {d.stats.rejectedByEnvelope} ruled out by their range · {d.stats.matched} meet {basis ? "one pump's share of " : ""}the duty
-          {d.stats.rejectedByNpsh ? ` · ${npshLeftOutText(d.stats.rejectedByNpsh, d.npshaAtDuty, sys)}` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
+          {d.npshLeftOut ? ` · ${d.npshLeftOut}` : ""} · {d.results.length ? `showing #${d.results[0].rank}–${d.results[d.results.length - 1].rank} of the ${d.paging.total} judged` : "none shown"}
           {d.hidden.duplicates ? ` · ${d.hidden.duplicates} copies of the same curve in other libraries merged` : ""}
           {d.hidden.overPower ? ` · ${d.hidden.overPower} above the max shaft power at their operating point left out` : ""}
           {d.powerFilter?.cut ? (
@@ -244,6 +246,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
           {d.catalogueCut ? <span className="caution" data-testid="search-catalogue-cut">{` · ${d.catalogueCut} (tick "allow beyond the catalogue" to see the hidden ones, or narrow the filters)`}</span> : null}
         </p>
       ) : null}
+      {d.stats && d.npshaNote ? <p className="text-xs caution" data-testid="search-npsha">{d.npshaNote}</p> : null}
       {d.stats && d.arrangement.rule ? <p className="text-xs text-slate-600" data-testid="search-arrangement-rule">{d.arrangement.rule}</p> : null}
       {d.stats && d.customLiquid ? (
         <p className="text-xs caution" data-testid="search-liquid">

@@ -14,11 +14,14 @@ const NPSHR_B = [1.5, 1.6, 1.8, 2.0, 2.3, 2.6, 3.0, 3.4, 3.8]; // m
 const rows = (model: string, peak: number, npshr: number[]) =>
   FLOWS.map((q, i) => `${model},end-suction,DN100,2900,200,${q},${head(q).toFixed(2)},${(eta(q, peak) * 100).toFixed(1)},${npshr[i]}`);
 export const NPSH_PROBE_CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,npshr_m", ...rows("Probe A", 0.75, NPSHR_A), ...rows("Probe B", 0.7, NPSHR_B)].join("\n");
+/** The same two curves published without an NPSHr column ("Probe C", "Probe D"): the search has no NPSHr to judge at the duty. */
+export const NPSH_PROBE_NO_NPSHR_CSV = ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct",
+  ...[...rows("Probe C", 0.75, NPSHR_A), ...rows("Probe D", 0.7, NPSHR_B)].map((r) => r.slice(0, r.lastIndexOf(",")))].join("\n");
 
-/** A workspace library of the two probes and a project to put systems in. */
-export async function npshProbeProject(v: Viewer): Promise<number> {
+/** A workspace library of the two probes (with `npshr: false`, the curves without NPSHr) and a project to put systems in. */
+export async function npshProbeProject(v: Viewer, opts: { npshr?: boolean } = {}): Promise<number> {
   const lib = await createLibrary(v, { name: "NPSH probes", description: "" });
-  await importCsvText(v, lib, NPSH_PROBE_CSV);
+  await importCsvText(v, lib, opts.npshr === false ? NPSH_PROBE_NO_NPSHR_CSV : NPSH_PROBE_CSV);
   await updateLibrary(v, lib, { name: "NPSH probes", description: "", visibility: "workspace" });
   return createProject(v, { name: "NPSH on the band", site: "", description: "" });
 }

@@ -46,6 +46,7 @@ describe("the search page's NPSH", () => {
     expect(cells[0]).toMatch(/— lowest \d\.\d+ at least lift, new pipe \(ok\)$/); // Probe B, first
     expect(text(html, "search-npsh-rule")).toMatch(/^NPSH margin over the band: NPSHa \/ NPSHr at least 1\.1 at the design point and at each corner of the band/);
     expect(text(html, "search-stats")).not.toMatch(/left out because their NPSHr/);
+    expect(html).not.toContain('data-testid="search-npsha"'); // NPSHa at the duty above zero: no note
     expect(html).not.toContain('data-testid="search-liquid"');
   });
 
@@ -64,7 +65,8 @@ describe("the search page's NPSH", () => {
   test("NPSHa at the duty at or below zero: the pumps left out are counted as no pump can run there, not by their NPSHr", async () => {
     // 20 °C water under one standard atmosphere holds about 10.3 m (common practice): a 12 m suction lift leaves NPSHa below zero.
     const html = await pageHtml(await npshProbeSystem(v, projectId, -12));
-    expect(text(html, "search-stats")).toMatch(/ · 2 left out because NPSHa at the duty is -\d\.\d+ m, at or below zero: no pump can run there without cavitating, whatever its NPSHr/);
+    expect(text(html, "search-stats")).toMatch(/ · 2 left out for NPSH at the duty \(NPSHa there at or below zero: see below\)/);
+    expect(text(html, "search-npsha")).toMatch(/^NPSHa at the duty is -\d\.\d+ m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it/);
     expect(text(html, "search-stats")).not.toMatch(/their NPSHr at the duty is above/);
   });
 

@@ -11,6 +11,9 @@ import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { makeMember, type TestMember } from "./harness";
 import { selectionPages } from "./selection-pages";
 import { probePumpCsv } from "./probe-pump";
+import { UNIT_SYSTEMS, type Quantity } from "~/engine";
+import { qt } from "~/engine/quantityText";
+import { renderUnits, SI_UNITS } from "~/lib/shared/units";
 
 afterAll(() => closeDb());
 
@@ -45,4 +48,18 @@ test("the note under the title, on one line; the inputs section with the duty, i
   expect(Number(inputs.get("density")![0])).toBeCloseTo(998.2, 0);
   expect(inputs.get("npsh_margin_wanted")).toEqual(["1.3", "1"]);
   expect(inputs.get("tariff_per_kwh")![1]).toMatch(/\/kWh$/);
+});
+
+test("the header names the units: numbers in SI by column, texts in the SI preset's display units it renders them with, every unit a text uses among them", async () => {
+  // The CSV wrote no units line: its columns name SI (flow_m3s) while its texts (verdict rule, warnings, steps) are rendered
+  // in m³/h, kPa, kW (the export route's renderDeep with SI_UNITS); the JSON's `units` says so (SELECTION_JSON_UNITS).
+  const { csv } = await selectionPages(m, selection);
+  const head = csv.slice(0, csv.findIndex((r) => r.length === 1 && r[0] === "")); // the comment lines before the first blank
+  const units = head.find((r) => /^# Units/.test(r[0]))?.[0] ?? "";
+  expect(units).toMatch(/^# Units: numbers in SI, each column's unit in its header .* Texts .* write quantities in the SI preset's display units: flow m³\/h, head m, pressure kPa, power kW, /);
+  for (const q of Object.keys(UNIT_SYSTEMS.SI) as Quantity[]) expect(units, q).toContain(renderUnits(qt(q, 1), SI_UNITS).replace(/^\S+ ?/, "")); // each quantity's unit as the texts render it
+  const texts = csv.filter((r) => r[0] === "figures" && r[3] === "").map((r) => r[2]).join(" ");
+  const used = [...texts.matchAll(/\d (m³\/h|m³\/s|kPa|Pa|kW|W|mm|m)\b/g)].map((x) => x[1]);
+  expect(used).toContain("m³/h"); // the case: a text in m³/h beside the flow_m3s columns
+  for (const u of used) expect(units, u).toMatch(new RegExp(` ${u.replace(/[/]/g, "\\/")}[,.]`));
 });

@@ -11,13 +11,31 @@ import { verdictMotorNote } from "./verdict-motor";
 import { verdictStagedNpshNote } from "./verdict-staged-npsh";
 import { serviceFactorNote } from "./motor-service-factor";
 import { inSI } from "~/engine/quantityText";
-import { DEFAULT_FLOW_TOLERANCE } from "~/engine";
+import { DEFAULT_FLOW_TOLERANCE, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 import { ratioShown, resultRatiosShown } from "./npsh-ratio";
 
 const row = (xs: unknown[]) => xs;
 
 /** The caution every export of a selection carries (the report shows the same above and below its figures). */
 export const SELECTION_CAUTION = "Figures are for design guidance; verify against the manufacturer's certified data, local codes and a licensed engineer.";
+
+/**
+ * The display units the texts of both exports are written in (verdict, reasons, rules, warnings, notes, messages: the
+ * export route renders every quantity token with the SI preset, `inSI` / `renderDeep(…, SI_UNITS)`), named per quantity
+ * from that preset, so the words cannot drift from what the texts hold: "flow m³/h, head m, pressure kPa, …".
+ */
+export const SELECTION_TEXT_UNITS = (Object.keys(UNIT_SYSTEMS.SI) as Quantity[])
+  .map((q) => `${q.replace(/[A-Z]/g, (c) => ` ${c.toLowerCase()}`)} ${unitLabel(q, UNIT_SYSTEMS.SI[q])}`)
+  .join(", ");
+
+/**
+ * The CSV's units line (a comment line of its header): its numbers in SI, each column's unit in its header name or, in
+ * the figures and inputs sections, in the unit column; its texts in the SI preset's display units (`SELECTION_TEXT_UNITS`).
+ */
+export const SELECTION_CSV_UNITS_LINE =
+  "# Units: numbers in SI, each column's unit in its header (m3s = m³/s, m, pa = Pa, w = W, kwh = kWh, h) or, in the figures and inputs sections, in the unit column " +
+  "(1: a fraction or ratio; money in the currency named there). Texts (title, note, verdict, reasons, rules, warnings, notes and messages) " +
+  `write quantities in the SI preset's display units: ${SELECTION_TEXT_UNITS}.`;
 
 /**
  * The units of the JSON export, named for every kind of number it holds: SI base units, except where a key names its
@@ -27,7 +45,7 @@ export const SELECTION_JSON_UNITS =
   "Numbers in SI: flow m3/s, head, lengths, diameters and roughness m, pressure Pa, power W, density kg/m3, dynamic viscosity Pa·s, " +
   "kinematic viscosity m2/s, velocity m/s; except where the key names its unit: temperatureC °C, …KWh kWh, tariffPerKWh per kWh, " +
   "hoursPerYear and hours h; speeds in rpm; efficiencies, ratios, fractions and tolerances as fractions of 1; money in `currency` " +
-  "(selections frozen before it was kept: result.figures.motor.currency); times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units (m³/h, m, mm, kPa, kW).";
+  "(selections frozen before it was kept: result.figures.motor.currency); times as ISO 8601 UTC. Texts (verdict, reasons, rules, warnings) are written in the SI preset's display units: " + `${SELECTION_TEXT_UNITS}.`;
 
 /** The JSON export's own format (2: a documented shape; 1 spread the stored record, internal ids included). */
 export const SELECTION_JSON_FORMAT = "dutymark-selection-export/2";
@@ -99,7 +117,8 @@ const ratioCell = ratioShown;
 /**
  * Sections, each with its own header row: system curve points, pump curve as used, the band's edges, NPSH at the design
  * point and the band's corners, the duty cycle step by step, the life-cycle cost year by year, and figures (the cycle's totals and life-cycle cost among them).
- * SI units named in every header; money in the workspace's currency, named in the unit column. Every caution the report
+ * SI units named in every header; money in the workspace's currency, named in the unit column; a units line in the header
+ * says so and names the display units the texts are written in (`SELECTION_CSV_UNITS_LINE`). Every caution the report
  * shows is a figure too (selection-cautions.ts), and a traced curve's source and caution a comment line under the guidance.
  * Pumps in parallel or series: a comment line says so, the curve, band and cycle power columns are named as the duty pumps'
  * together (`shaft_power_all_duty_pumps_w`), and the figures get a basis column (per pump, or the duty pumps together) with
@@ -120,6 +139,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
     ? `# ${basis.arrangement}: pump curve and band are of the ${basis.together} (flows, heads and powers); the duty cycle of the duty pumps running at each step (pumps_running, staged by demand; standby pumps never run); figures name their basis`
     : `# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
   lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe; npsh_margin_ratio blank where NPSHa <= 0 (no ratio to NPSHr means anything there: NPSHa is beside it)"]));
+  lines.push(row([SELECTION_CSV_UNITS_LINE]));
   lines.push([]);
   const w = (name: string) => powerColumn(basis, name);
   lines.push(row(["section", "flow_m3s", "head_m", "head_low_m", "head_high_m", "pressure_pa", "npsha_m"]));

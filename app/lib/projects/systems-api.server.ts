@@ -6,6 +6,7 @@ import { systemWorkbench } from "./projects.server";
 import { SEARCH_SHOWN, searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchApiView, workbenchView } from "./workbench-view";
 import { searchResultView } from "./search-view";
+import { npshaAtDutyNote } from "./search-npsha";
 
 export const SI_UNITS = { flow: "m3/s", head: "m", pressure: "Pa", power: "W", diameter: "m", length: "m", speed: "rpm", efficiency: "fraction" } as const;
 
@@ -34,6 +35,10 @@ export async function systemSearchView(viewer: Viewer, systemId: number, filters
     duty: res.system.input.duty,
     message: res.message,
     stats: res.stats,
+    /** NPSHa at the duty flow, m (the true value: below zero where the suction cannot give any; null without a duty). */
+    npshaAtDuty: res.npshaAtDuty,
+    /** Where NPSHa at the duty is at or below zero, that no pump can run there, with NPSHa and the pumps left out for it (search-npsha.ts); else null. */
+    npshaNote: npshaAtDutyNote(res.npshaAtDuty, res.stats?.rejectedByNpsh ?? 0),
     /**
      * The arrangement searched: { arrangement (single, parallel, series), dutyPumps, standbyPumps, searchedDuty (one pump's
      * share of the duty the engine ranked at, m³/s and m; null without a duty), rule (in words; null for one pump) }.

@@ -3,7 +3,8 @@
 // that "meets the duty" while it cavitates is no pump to sign, so wherever the verdict is shown as a headline (the
 // candidates table, the report, the search row, the chart's label, the CSV) a cavitation risk or a low NPSH margin
 // qualifies it on the same line, with its rule and numbers. Pure; quantities as tokens (quantityText.ts).
-import { fmtNumExact, qtExact } from "~/engine/quantityText";
+import { qtExact } from "~/engine/quantityText";
+import { marginRatioText } from "./npsh-ratio";
 import type { NpshJudgement } from "./candidate-judgement";
 
 type VerdictLike = { status: string } | null | undefined;
@@ -23,7 +24,7 @@ export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string 
   if (r == null) return null;
   const required = n.judgedAt?.find((p) => p.at === n.at)?.required ?? null;
   const wanted = n.requiredMargin;
-  const ratio = fmtNumExact(r, [1, wanted], 2);
+  const ratio = marginRatioText(r, wanted); // "< 0.01" just above zero, as the table
   if (n.status === "cavitation-risk") {
     return a != null && required != null
       ? `NPSHa ${qtExact("head", a, [required])} below NPSHr ${qtExact("head", required, [a])} at ${n.at} (NPSHa / NPSHr ${ratio}, below 1): cavitation risk`
