@@ -5,7 +5,7 @@
 import { describe, expect, it } from "vitest";
 import { fluidAt } from "./fluids.ts";
 import { systemCurve, type SystemSpec } from "./system.ts";
-import { TRANSITION_DUTY_FRACTION } from "./transitionText.ts";
+import { TRANSITION_DUTY_FRACTION, transitionFlows } from "./transitionText.ts";
 import { inSI } from "./quantityText.ts";
 
 const spec = (tC: number, method?: SystemSpec["frictionMethod"]): SystemSpec => ({
@@ -65,5 +65,20 @@ describe("the transition warning over a system curve", () => {
   it("a curve that ends below the band has none (the band starts at 0.000158 m³/s at 20 °C)", () => {
     const c = systemCurve(spec(20), { flowMax: 0.00015, points: 41 });
     expect(c.warnings.filter((w) => w.code === "transition-flow")).toEqual([]);
+  });
+});
+
+describe("a duty exactly at an end of the band (Re 2000 or 4000, as transitionFlows gives them)", () => {
+  // Re 4000 is turbulent and Re 2000 laminar (headLoss.ts: 64/Re up to 2000, turbulent from 4000): a duty there is at the
+  // band's end, not past it. Was "is above it" / "is below it" at the very end.
+  const nu = fluidAt({ kind: "water" }, 20).kinematicViscosity;
+  const { low, high } = transitionFlows(0.1, nu);
+  it("at the top end: 'is at its top end, turbulent'; a hair above: 'is above it'", () => {
+    expect(transition(spec(20), 41, high)[0]).toMatch(/\(Re = 4000\) is at its top end, turbulent: only the curve below/);
+    expect(transition(spec(20), 41, high * (1 + 1e-6))[0]).toMatch(/\(Re = 4000\.0\d*\) is above it, turbulent/);
+  });
+  it("at the bottom end: 'is at its bottom end, laminar'; a hair below: 'is below it'", () => {
+    expect(transition(spec(20), 41, low)[0]).toMatch(/\(Re = 2000\) is at its bottom end, laminar \(64\/Re\)/);
+    expect(transition(spec(20), 41, low * (1 - 1e-6))[0]).toMatch(/\(Re = 1999\.99\d*\) is below it, laminar/);
   });
 });

@@ -108,8 +108,9 @@ export function transitionBandWarning(
   if (duty != null && duty > 0) {
     const d = `the duty flow ${qtExact("flow", duty, [low, high])} (Re = ${fmtNumExact(reAt(duty), [LAMINAR_MAX_RE, TURBULENT_MIN_RE], 0)})`;
     where = dutyIn ? `; ${d} is in it`
-      : duty >= high ? `; ${d} is above it, turbulent: only the curve below ${qtLimit("flow", high, dutyShown)} (${fmtPctExact(high / duty, [TRANSITION_DUTY_FRACTION, 1])} of the duty flow; warned from ${fmtPctLimit(TRANSITION_DUTY_FRACTION)} of it) is affected`
-      : `; ${d} is below it, laminar (64/Re)`;
+      // At an end exactly: Re 4000 is turbulent, Re 2000 laminar (headLoss.ts), so the duty is at the band's end, not past it.
+      : duty >= high ? `; ${d} is ${duty === high ? "at its top end" : "above it"}, turbulent: only the curve below ${qtLimit("flow", high, dutyShown)} (${fmtPctExact(high / duty, [TRANSITION_DUTY_FRACTION, 1])} of the duty flow; warned from ${fmtPctLimit(TRANSITION_DUTY_FRACTION)} of it) is affected`
+      : `; ${d} is ${duty === low ? "at its bottom end" : "below it"}, laminar (64/Re)`;
   }
   return { code: "transition-flow", parameter: "reynolds", message: `${band}${where}. ${method}` };
 }
