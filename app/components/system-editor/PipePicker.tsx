@@ -28,8 +28,11 @@ export function searchPipeTables(query: string, tables: readonly PipeTable[] = P
   });
 }
 
-/** A run's table and size as stored where the catalogue does not list them now (system-form.ts `systemFormValues`). */
-export type StoredSize = { table: string; nominal: string; bore: string; note: string };
+/**
+ * A run's table and size as stored where the catalogue does not list them now (system-form.ts `systemFormValues`). Nothing
+ * of it is posted: the server keeps such a size only on the run its stored document holds it on (`readSystemForm`).
+ */
+export type StoredSize = { table: string; nominal: string; note: string };
 
 /** What an option of a table or size the catalogue does not list now says after its name. */
 export const NOT_LISTED = "(not in the catalogue now)";
@@ -123,13 +126,6 @@ export function PipePicker({ index, table, nominal, stored, unitSystem, error, o
             ? `Pick a size of ${current.name}; its inner diameter shows here.`
             : "No table: type the inner diameter below."}
       </p>
-      {stored ? (
-        <>
-          <input type="hidden" name={`${p}storedTable`} value={stored.table} />
-          <input type="hidden" name={`${p}storedNominal`} value={stored.nominal} />
-          <input type="hidden" name={`${p}storedBore`} value={stored.bore} />
-        </>
-      ) : null}
     </>
   );
 }

@@ -18,6 +18,7 @@ import {
   candidatesFlowMax,
   SystemInputEntrySchema,
   type Adjustment,
+  type PipeRunInput,
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
@@ -163,6 +164,16 @@ export async function createSystem(viewer: Viewer, projectId: number, name: stri
     .values({ projectId: p.id, workspaceId: p.workspaceId, name, inputJson: JSON.stringify(input) })
     .$returningId();
   return id;
+}
+
+/**
+ * The runs of a system's stored document at the positions the editor shows them (a document that does not pass the
+ * schema as `editorInput` reads it): what the editor's form is read against (`readSystemForm`), so only a run stored on
+ * a table or size the catalogue does not list now keeps it — the server's word, not a posted field.
+ */
+export async function storedRuns(viewer: Viewer, systemId: number): Promise<PipeRunInput[]> {
+  const r = readStoredInput((await systemRecord(viewer, systemId)).inputJson);
+  return r.ok ? r.input.runs : editorInput(r.raw).runs;
 }
 
 export async function saveSystem(viewer: Viewer, systemId: number, name: string, input: SystemInput) {

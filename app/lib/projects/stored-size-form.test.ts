@@ -1,7 +1,7 @@
 // The form codec (system-form.ts) on a stored run naming a table or size the catalogue does not list now (old data): the
 // editor's values carry it as stored with the system warning's words and its bore; read back, the form keeps it as stored
 // (table, size name, bore to the last digit) while the size stays as stored, takes a bore typed over it, and still refuses
-// an unlisted size the page did not show as stored. Check values: the engine's catalogue (Steel, Schedule 40: 1/2 to 24, no
+// an unlisted size the stored runs it is read against do not hold at that run. Check values: the engine's catalogue (Steel, Schedule 40: 1/2 to 24, no
 // "30"; 4 at 102.26 mm; no table "steel-sch30"), the warning's words (system-input.ts `sizeNotInCatalogue`); bores invented.
 import { describe, expect, it } from "vitest";
 import { PIPE_TABLES } from "~/engine";
@@ -22,12 +22,12 @@ function postedRun(r: PipeRunInput, units = SI_UNITS): Record<string, string> {
   const v = systemFormValues({ ...defaultSystemInput(), runs: [r] }, units).runs[0];
   return {
     "run.0.table": v.table, "run.0.nominal": v.nominal, "run.0.diameter": v.diameter, "run.0.name": v.name,
-    ...(v.stored ? { "run.0.storedTable": v.stored.table, "run.0.storedNominal": v.stored.nominal, "run.0.storedBore": v.stored.bore } : {}),
   };
 }
-const read = (o: Record<string, string>, units = SI_UNITS) => {
+/** The form read against the stored runs (the server's from the database, the page's from its loader). */
+const read = (o: Record<string, string>, units = SI_UNITS, storedRuns: PipeRunInput[] = [unlisted]) => {
   const m = new Map(Object.entries({ ...base, ...(units === US_UNITS ? { temperature: "68", suctionSurfacePressure: "14.696" } : {}), ...o }));
-  return readSystemForm({ get: (k: string) => m.get(k) ?? null }, units);
+  return readSystemForm({ get: (k: string) => m.get(k) ?? null }, units, storedRuns);
 };
 
 describe("a stored run on a table or size the catalogue does not list now", () => {
@@ -36,14 +36,14 @@ describe("a stored run on a table or size the catalogue does not list now", () =
       const v = systemFormValues({ ...defaultSystemInput(), runs: [r] }, SI_UNITS).runs[0];
       const warning = runInputWarnings({ ...defaultSystemInput(), runs: [r] }).find((w) => w.includes("is used"))!;
       expect([v.table, v.nominal]).toEqual([r.pipeTable, r.nominal]);
-      expect(v.stored).toEqual({ table: r.pipeTable, nominal: r.nominal, bore: String(r.diameter), note: renderUnits(warning, SI_UNITS) });
+      expect(v.stored).toEqual({ table: r.pipeTable, nominal: r.nominal, note: renderUnits(warning, SI_UNITS) });
       expect(v.diameter).not.toBe(""); // old code: "" beside a size shown as "—"
     }
   });
   it("saved unchanged, in SI and US units: kept as stored, the bore to the last digit (was: 'Enter the inner diameter.')", () => {
     for (const units of [SI_UNITS, US_UNITS]) {
       for (const r of [unlisted, gone]) {
-        const got = read(postedRun(r, units), units);
+        const got = read(postedRun(r, units), units, [r]);
         expect(got.errors).toEqual({});
         expect(got.input!.runs[0]).toMatchObject({ pipeTable: r.pipeTable, nominal: r.nominal, diameter: r.diameter });
       }
@@ -57,9 +57,10 @@ describe("a stored run on a table or size the catalogue does not list now", () =
     expect(read({ ...p, "run.0.diameter": String(701.23456789 * (1 + 1.1e-4)) }).input!.runs[0].diameter).toBeCloseTo(0.70123456789 * (1 + 1.1e-4), 12);
     expect(read({ ...p, "run.0.diameter": "" }).errors).toEqual({ "run.0.diameter": "Enter the inner diameter." }); // blank: said at the field
   });
-  it("an unlisted size the page did not show as stored is refused, as before", () => {
+  it("an unlisted size the stored document does not hold on this run is refused, as before", () => {
     const p = postedRun(unlisted);
-    expect(read({ ...p, "run.0.storedNominal": "" }).errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." });
+    expect(read(p, SI_UNITS, []).errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." }); // no stored runs given
+    expect(read(p, SI_UNITS, [{ ...unlisted, nominal: "32" }]).errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." });
     expect(read({ ...p, "run.0.nominal": "32" }).errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." });
     expect(read({ ...p, "run.0.table": "steel-sch80" }).errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." });
   });
@@ -69,6 +70,6 @@ describe("a stored run on a table or size the catalogue does not list now", () =
     }
     const other = { ...tableRun("discharge", "Main", "steel-sch40", "4", "steel", 120), diameter: 0.1 };
     expect(systemFormValues({ ...defaultSystemInput(), runs: [other] }, SI_UNITS).runs[0].stored).toBeNull();
-    expect(read(postedRun(other)).input!.runs[0].diameter).toBe(PIPE_TABLES.find((t) => t.id === "steel-sch40")!.sizes.find((s) => s.nominal === "4")!.innerDiameter);
+    expect(read(postedRun(other), SI_UNITS, [other]).input!.runs[0].diameter).toBe(PIPE_TABLES.find((t) => t.id === "steel-sch40")!.sizes.find((s) => s.nominal === "4")!.innerDiameter);
   });
 });

@@ -75,8 +75,11 @@ export function materialShownFor(r: Pick<PipeRunInput, "pipeTable" | "material">
 /**
  * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
  * ranges. Returns the errors keyed by field name (for messages next to the fields), in the user's units.
+ * `storedRuns`: the runs of the system's stored document, at the positions the editor shows them (`editorInput` keeps
+ * each at its index) — the server reads them from the database, the page from its loader; only a run stored on a table or
+ * size the catalogue does not list now may be posted back on it (decision "storedattack"). Without them, none may.
  */
-export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInput | null; name: string; errors: FormErrors } {
+export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonly PipeRunInput[] = []): { input: SystemInput | null; name: string; errors: FormErrors } {
   const errors: FormErrors = {};
   const si = (q: Quantity, key: string, label: string, optional = false) => {
     const n = readNumber(f, key, errors, { label, optional });
@@ -115,16 +118,20 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
     const pipeTable = (f.get(`${p}table`) ?? "").toString();
     const nominal = (f.get(`${p}nominal`) ?? "").toString();
     let diameter: number | null = null;
+    let sized = !!(pipeTable && nominal); // the run keeps the table and size posted (not where the size is refused)
     if (pipeTable && nominal) {
       try {
         diameter = innerDiameter(pipeTable, nominal);
       } catch {
-        // A table or size the catalogue does not list now, as the run was stored (old data: the editor shows it with the
-        // system warning's words and posts it back with `run.N.storedTable` / `storedNominal`): kept as stored, on the bore
-        // in the inner diameter field (the stored one, `storedBore` in m, where the field still shows it). Any other
-        // unlisted size is refused.
-        if (pipeTable === f.get(`${p}storedTable`) && nominal === f.get(`${p}storedNominal`)) diameter = storedBoreOr(f, p, si("diameter", `${p}diameter`, "the inner diameter"));
-        else errors[`${p}nominal`] = "Pick a size from this pipe table.";
+        // A table or size the catalogue does not list now, as this run is stored (old data: the editor shows it with the
+        // system warning's words): kept as stored, on the bore in the inner diameter field (the stored one where the field
+        // still shows it). The stored document decides, never a posted field; any other unlisted size is refused.
+        const kept = storedUnlisted(storedRuns[i], pipeTable, nominal);
+        if (kept) diameter = storedBoreOr(kept.diameter, si("diameter", `${p}diameter`, "the inner diameter"));
+        else {
+          errors[`${p}nominal`] = "Pick a size from this pipe table.";
+          sized = false;
+        }
       }
     } else diameter = si("diameter", `${p}diameter`, "the inner diameter");
     const mat = materialForTable(f.get(`${p}material`)?.toString() ?? null, f.get(`${p}materialShown`)?.toString() ?? null, pipeTable);
@@ -156,8 +163,8 @@ export function readSystemForm(f: FormLike, sys: UnitChoice): { input: SystemInp
     runs.push({
       side,
       name: (f.get(`${p}name`) ?? "").toString().slice(0, 80) || `${side === "suction" ? "Suction" : "Discharge"} run ${i + 1}`,
-      pipeTable: pipeTable && nominal ? pipeTable : "",
-      nominal: pipeTable && nominal ? nominal : "",
+      pipeTable: sized ? pipeTable : "",
+      nominal: sized ? nominal : "",
       diameter: diameter ?? 0,
       material: mat,
       roughness,
@@ -263,12 +270,21 @@ export function roughnessHints(materialId: string, pipeTable: string, sys: UnitC
 }
 
 /**
- * The bore of a run kept on a size the catalogue does not list now: the stored one (`run.N.storedBore`, m, full precision)
- * where the inner diameter field still shows it to its five significant digits (show()), else the one typed.
+ * The stored run at a form position when it names exactly this table and size and the catalogue does not list them now
+ * (`storedSizeNote`); else null. A listed size, another run's stored size, or a table or size the run was not stored with
+ * is never kept this way.
  */
-function storedBoreOr(f: FormLike, p: string, typed: number | null): number | null {
-  const stored = Number(f.get(`${p}storedBore`) ?? NaN);
-  if (typed == null || !(stored > 0)) return typed;
+function storedUnlisted(run: PipeRunInput | undefined, pipeTable: string, nominal: string): PipeRunInput | null {
+  if (!run || run.pipeTable !== pipeTable || run.nominal !== nominal) return null;
+  return storedSizeNote(run) ? run : null;
+}
+
+/**
+ * The bore of a run kept on a size the catalogue does not list now: the stored one (m, full precision, from the stored
+ * document) where the inner diameter field still shows it to its five significant digits (show()), else the one typed.
+ */
+function storedBoreOr(stored: number, typed: number | null): number | null {
+  if (typed == null || !(stored > 0) || !Number.isFinite(stored)) return typed;
   return Math.abs(typed - stored) <= SHOWN_PRECISION * stored ? stored : typed;
 }
 
@@ -312,7 +328,7 @@ export function systemFormValues(input: SystemInput, sys: UnitChoice) {
         name: r.name,
         table: r.pipeTable,
         nominal: r.nominal,
-        stored: note ? { table: r.pipeTable, nominal: r.nominal, bore: String(r.diameter), note: renderUnits(note, sys) } : null,
+        stored: note ? { table: r.pipeTable, nominal: r.nominal, note: renderUnits(note, sys) } : null,
         diameter: r.pipeTable && !note ? "" : show(sys, "diameter", r.diameter),
         diameterShown: show(sys, "diameter", r.diameter),
         material: r.material,
