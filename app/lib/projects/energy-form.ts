@@ -3,7 +3,26 @@
 import { countField, decimalField } from "../shared/decimal";
 import { DEFAULT_ENERGY_SETTINGS, MAX_LCC_YEARS, MAX_PROFILE_STEPS, MIN_LCC_YEARS, type EnergySettings } from "./energy";
 
-type FormLike = { get(name: string): FormDataEntryValue | null };
+type FormLike = { get(name: string): FormDataEntryValue | null; keys?(): Iterable<string> };
+
+const STEP_FIELD = /^energy\.step\.(\d+)\.(?:pct|hours)$/;
+
+/**
+ * The first row past the form's MAX_PROFILE_STEPS that carries a value (a post no page of ours makes: the form has that many
+ * rows), or null. Read from the form's keys where it has them (FormData, URLSearchParams); such rows were dropped unsaid.
+ */
+function rowPastLimit(f: FormLike): number | null {
+  if (typeof f.keys !== "function") return null;
+  let first: number | null = null;
+  for (const k of f.keys()) {
+    const m = STEP_FIELD.exec(k);
+    if (!m) continue;
+    const row = Number(m[1]);
+    if (row < MAX_PROFILE_STEPS || String(f.get(k) ?? "").trim() === "") continue;
+    if (first === null || row < first) first = row;
+  }
+  return first;
+}
 
 /** A number, or null for blank or bad text (bad text: its message under `key`; the forms' strict reader, shared/decimal.ts). */
 
@@ -29,6 +48,8 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
       formSteps.push(i); // the form row of this profile step (blank rows are left out): where its issues are said
       profile.push({ flowFraction: pct / 100, hours });
     }
+    const past = rowPastLimit(f);
+    if (past !== null) errors["energy.profileKind"] ??= `At most ${MAX_PROFILE_STEPS} steps: the form has ${MAX_PROFILE_STEPS} rows, and a value was sent for row ${past + 1}. Put the hours into ${MAX_PROFILE_STEPS} steps or fewer.`;
   }
   // A rate left blank is 0 %/year — no escalation, no discounting — as the form's hint says (DutyCycleFieldset.tsx); it
   // took the example 3 % and 5 % (DEFAULT_ENERGY_SETTINGS), a value nobody typed, into the life-cycle cost.
