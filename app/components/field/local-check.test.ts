@@ -5,7 +5,7 @@
 // H = 40 m − 1000 s²/m⁵ · Q (invented), water at 20 °C (ρ from the engine's table, IAPWS from memory).
 import { describe, expect, test } from "vitest";
 import { fluidAt } from "~/engine";
-import { headRefusal, parseCheckFields } from "~/lib/fieldchecks";
+import { checkedHeadRefusal, headRefusal, parseCheckFields } from "~/lib/fieldchecks";
 import { SI_UNITS } from "~/lib/shared/units";
 import { fieldsForHead, frozenFixture } from "~/test/fieldcheck-fixture";
 import { checkOnPhone } from "./local-check";
@@ -47,5 +47,23 @@ describe("the phone's check before queueing: a total head at or below zero", () 
     if (r.ok) return;
     expect(r.errors.gradeId).toBe("Choose a tolerance grade from the table.");
     expect(r.errors.dPressure).toBeTruthy();
+  });
+});
+
+describe("no flow meter and a smaller discharge pipe: the check's own head (the flow inferred from the curve)", () => {
+  // At no flow the velocity heads are 0: 200 kPa on both gauges is 0 m and the curve (10–40 m) meets no such head, so the
+  // check's head stays 0 m; 200.001 kPa is +1.0e-4 m (0.001 kPa / (998.2 × 9.80665), hand). Decision "storedattack".
+  const noMeter = (d: string) => fieldsForHead(0, RHO20, { flow: "", dDiameter: "99", sPressure: "200", dPressure: d });
+  test("0 m: refused at dPressure with the server's words (checkedHeadRefusal), nothing to queue (old phone: kept, verdict unknown)", () => {
+    const r = checkOnPhone(noMeter("200"), frozen, SI_UNITS);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    const p = parseCheckFields(noMeter("200"), { kind: "water" });
+    if (!p.ok) throw new Error("fixture");
+    expect(r.errors.dPressure).toBe(checkedHeadRefusal(0, p.readings, p.fields));
+    expect(r.errors.dPressure).toMatch(/total head of 0 m, at zero .*no flow reading: at the flow inferred from the curve/);
+  });
+  test("the flip: +1e-4 m is worked out and kept", () => {
+    expect(checkOnPhone(noMeter("200.001"), frozen, SI_UNITS).ok).toBe(true);
   });
 });

@@ -33,4 +33,4 @@ export { crossOf, crossSentences, type CrossArm } from "./cross";
 export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
 export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";
-export { headRefusal } from "./head-check";
+export { checkedHeadRefusal, headRefusal } from "./head-check";

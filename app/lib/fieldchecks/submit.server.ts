@@ -3,12 +3,12 @@
 import { EngineInputError } from "~/engine";
 import { formId } from "../shared/forms.server";
 import type { Viewer } from "../libraries";
-import { gradeById } from "./evaluate";
+import { evaluateCheck, gradeById } from "./evaluate";
 import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";
 import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
 import { readTakenAt } from "./taken-at";
-import { headRefusal } from "./head-check";
+import { checkedHeadRefusal, headRefusal } from "./head-check";
 
 /** Form fields that say how to record, not what was read (never stored among the readings). */
 const CONTROL_FIELDS = ["amends", "gradeId", "notes", "clientId", "basedOn", "photos", "takenAt", "pageWorkspaceId"] as const;
@@ -39,6 +39,16 @@ export async function submitCheckForm(viewer: Viewer, selectionId: number, form:
   const noHead = parsed.ok ? headRefusal(parsed.readings, selection.frozen.system.input, parsed.fields) : null;
   if (noHead) errors.dPressure = noHead;
   if (!parsed.ok || Object.keys(errors).length) return { ok: false, status: 400, errors, fields };
+  // Where the flow is inferred from the curve (no flow meter, a smaller discharge pipe), the check's own head decides.
+  if (parsed.readings.flow === null) {
+    try {
+      const noCheckedHead = checkedHeadRefusal(evaluateCheck(selection.frozen, parsed.readings, gradeId!).delivered.head, parsed.readings, parsed.fields);
+      if (noCheckedHead) return { ok: false, status: 400, errors: { dPressure: noCheckedHead }, fields };
+    } catch (e) {
+      if (e instanceof EngineInputError) return { ok: false, status: 422, errors: { _form: `These readings cannot be worked out: ${e.message}.` }, fields };
+      throw e;
+    }
+  }
 
   const readingFields: CheckFields = { ...fields };
   for (const key of CONTROL_FIELDS) delete readingFields[key];
