@@ -36,7 +36,7 @@ async function stored(systemId: number): Promise<string> {
   return row.inputJson;
 }
 
-/** The editor's form for `input` as the page posts it unchanged (hidden stored marks included where the page shows them). */
+/** The editor's form for `input` as the page posts it unchanged, with the hidden stored marks the page used to post. */
 function pageForm(input: SystemInput): Record<string, string> {
   const f = systemFormValues(input, SI_UNITS);
   const out: Record<string, string> = {
@@ -47,7 +47,8 @@ function pageForm(input: SystemInput): Record<string, string> {
   f.runs.forEach((r, i) => {
     const p = `run.${i}.`;
     Object.assign(out, { [`${p}side`]: r.side, [`${p}name`]: r.name, [`${p}table`]: r.table, [`${p}nominal`]: r.nominal, [`${p}diameter`]: r.diameter, [`${p}length`]: r.length, [`${p}material`]: r.material, [`${p}materialShown`]: r.materialShown });
-    if (r.stored) Object.assign(out, { [`${p}storedTable`]: r.stored.table, [`${p}storedNominal`]: r.stored.nominal, [`${p}storedBore`]: r.stored.bore });
+    // The marks the page posted before (decision "oldedge"): an attacker may still send them; they decide nothing now.
+    if (r.stored) Object.assign(out, { [`${p}storedTable`]: r.stored.table, [`${p}storedNominal`]: r.stored.nominal, [`${p}storedBore`]: String(input.runs[i].diameter) });
   });
   return out;
 }
@@ -87,7 +88,7 @@ describe("the stored document decides, not the posted marks", () => {
     const id = await createSystem(v, projectId, `Kept ${run.pipeTable} ${run.nominal}`, input);
     const page = pageForm(input);
     const markless = Object.fromEntries(Object.entries(page).filter(([k]) => !/\.stored/.test(k)));
-    for (const marks of [{}, { "run.0.storedBore": "NaN" }, { "run.0.storedBore": "Infinity" }, { "run.0.storedBore": "1e400" }, { "run.0.storedBore": "-0.7" }, { "run.0.storedBore": String(run.diameter * 1.00005) }, { "run.0.storedTable": "x", "run.0.storedNominal": "y" }]) {
+    for (const marks of <Record<string, string>[]>[{}, { "run.0.storedBore": "NaN" }, { "run.0.storedBore": "Infinity" }, { "run.0.storedBore": "1e400" }, { "run.0.storedBore": "-0.7" }, { "run.0.storedBore": String(run.diameter * 1.00005) }, { "run.0.storedTable": "x", "run.0.storedNominal": "y" }]) {
       const a = await save(id, { ...markless, ...marks });
       expect(errorsOf(a.body), JSON.stringify(marks)).toEqual({});
       const r = (JSON.parse(await stored(id)) as SystemInput).runs[0];
