@@ -368,6 +368,21 @@ async function testCluster() {
   ensureDependencies();
   ensureChromium();
   const { startGaleraCluster, createClusterDatabase, sqlAt, wsrepStatus } = await import("./galera.mjs");
+  mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
+  let passed = 0;
+  let failedCount = 0;
+  let failed = false;
+  // How the cluster starts when a node's port is taken (app/test/galera-start.test.ts: two-node clusters of its own,
+  // in a temp directory), before this run's cluster starts, so they do not share the machine with it.
+  const startJson = path.join(DATA_ROOT, "reports", "vitest-galera-start.json");
+  const scode = await run(npmBin("vitest"), ["run", "app/test/galera-start.test.ts", "--reporter=default", "--reporter=json", `--outputFile.json=${startJson}`], {
+    ...process.env,
+    DUTYMARK_GALERA_TESTS: "1",
+  });
+  const sr = readJson(startJson);
+  passed += sr?.numPassedTests ?? 0;
+  failedCount += sr?.numFailedTests ?? 0;
+  if (scode !== 0 || !sr || sr.numPassedTests < 3) failed = true;
   const cluster = await startGaleraCluster(3);
   cleanups.push(cluster.stopAll);
   const [n1, n2, n3] = cluster.nodes;
@@ -382,10 +397,6 @@ async function testCluster() {
   await mustRun("migrations", npmBin("tsx"), ["db/migrate.ts"], env);
   await mustRun("demo data", npmBin("tsx"), ["app/cli/seed.ts"], env);
   await mustRun("build", npmBin("react-router"), ["build"], env);
-  mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
-  let passed = 0;
-  let failedCount = 0;
-  let failed = false;
   const vitestJson = path.join(DATA_ROOT, "reports", "vitest-cluster.json");
   const vcode = await run(npmBin("vitest"), ["run", "app/test/cluster.test.ts", "--reporter=default", "--reporter=json", `--outputFile.json=${vitestJson}`], {
     ...env,

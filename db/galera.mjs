@@ -62,7 +62,11 @@ async function stopNode(node, { kill = false } = {}) {
 /** A port taken between freePort() and the server's bind (another process on the machine): the log says so. */
 const PORT_TAKEN = /Can't start server: Bind on TCP\/IP port|Address already in use/;
 
-async function startNode(node, { bootstrap, clusterAddress, recover = false }, attempt = 1) {
+/** The ports of a node, as its messages name them. */
+const portsText = (n) => `client ${n.port}, group ${n.gcommPort}, IST ${n.istPort}, SST ${n.sstPort}`;
+
+async function startNode(node, { bootstrap, clusterAddress, recover = false, choosePort = freePort }, attempt = 1, tried = []) {
+  tried.push(portsText(node));
   let logBefore = 0;
   try {
     logBefore = readFileSync(node.logFile, "utf8").length;
@@ -112,7 +116,8 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false }, a
   // Ready when the node answers and says it is synced with the cluster.
   for (let i = 0; i < 1200; i++) {
     if (ping(node.socket) && wsrepStatus(node.socket, "wsrep_local_state_comment") === "Synced") return;
-    if (child.exitCode !== null) break;
+    // Gone: exited, or killed by a signal (after "Aborting" on a port already in use, mariadbd dies by SIGABRT: no exit code)
+    if (child.exitCode !== null || child.signalCode !== null) break;
     await sleep(100);
   }
   let log_ = "";
@@ -124,21 +129,23 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false }, a
   if (attempt < 3 && PORT_TAKEN.test(log_.slice(logBefore))) {
     if (pidAlive(node.pid)) process.kill(node.pid, "SIGKILL");
     for (let k = 0; k < 50 && pidAlive(node.pid); k++) await sleep(100);
-    Object.assign(node, { port: await freePort(), istPort: await freePort(), sstPort: await freePort() });
+    Object.assign(node, { port: await choosePort(node.name, "client"), istPort: await choosePort(node.name, "IST"), sstPort: await choosePort(node.name, "SST") });
     log(`${node.name}: a port was taken before it could bind (another process); starting again on 127.0.0.1:${node.port}`);
-    return startNode(node, { bootstrap, clusterAddress, recover }, attempt + 1);
+    return startNode(node, { bootstrap, clusterAddress, recover, choosePort }, attempt + 1, tried);
   }
   const tail = log_.split("\n").slice(-25).join("\n");
-  throw new Error(`${node.name} did not join the cluster. Last lines of its log:\n${tail}`);
+  const where = tried.length > 1 ? `on any of its ${tried.length} sets of ports (${tried.join("; ")})` : `on 127.0.0.1 (${tried[0]})`;
+  throw new Error(`${node.name} did not join the cluster ${where}. Last lines of its log:\n${tail}`);
 }
 
 /**
  * Starts a cluster of `size` nodes (fresh data directories each time) and returns
  * { nodes: [{ name, port, socket, stop(), start() }], stopAll() }.
+ * `root` holds the nodes' files (emptied first); `choosePort(nodeName, role)` gives each port (role: client, group,
+ * IST, SST), a free one by default — the tests of this file take their own directory and hand out ports they occupy.
  */
-export async function startGaleraCluster(size = 3) {
+export async function startGaleraCluster(size = 3, { root = path.join(DATA_ROOT, "galera"), choosePort = freePort } = {}) {
   ensureGaleraInstalled();
-  const root = path.join(DATA_ROOT, "galera");
   rmSync(root, { recursive: true, force: true });
   mkdirSync(root, { recursive: true });
   const nodes = [];
@@ -152,10 +159,10 @@ export async function startGaleraCluster(size = 3) {
       socket,
       pidFile: path.join(root, `node${i}.pid`),
       logFile: path.join(root, `node${i}.err`),
-      port: await freePort(),
-      gcommPort: await freePort(),
-      istPort: await freePort(),
-      sstPort: await freePort(),
+      port: await choosePort(`node${i}`, "client"),
+      gcommPort: await choosePort(`node${i}`, "group"),
+      istPort: await choosePort(`node${i}`, "IST"),
+      sstPort: await choosePort(`node${i}`, "SST"),
       pid: 0,
     });
   }
@@ -165,7 +172,7 @@ export async function startGaleraCluster(size = 3) {
   // at the same position (Galera then transfers nothing, or the little that changed, by IST).
   const first = nodes[0];
   try {
-    await startNode(first, { bootstrap: true, clusterAddress });
+    await startNode(first, { bootstrap: true, clusterAddress, choosePort });
     await stopNode(first);
     for (const node of nodes.slice(1)) {
       rmSync(node.dir, { recursive: true, force: true });
@@ -175,10 +182,10 @@ export async function startGaleraCluster(size = 3) {
     rmSync(path.join(first.dir, "gvwstate.dat"), { force: true });
     for (const [i, node] of nodes.entries()) {
       const t0 = Date.now();
-      await startNode(node, { bootstrap: i === 0, clusterAddress });
+      await startNode(node, { bootstrap: i === 0, clusterAddress, choosePort });
       log(`${node.name} synced on 127.0.0.1:${node.port} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
       node.stop = (opts) => stopNode(node, opts);
-      node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true });
+      node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true, choosePort });
     }
   } catch (e) {
     // A node that did not join: the nodes already running are stopped, not left behind (they outlived a failed run).
