@@ -3,11 +3,9 @@
 // NPSHa = (p_surface − p_vapour)/(ρ g) + z_suction − h_f (common practice) is then the static head alone, less the suction
 // losses, at best; computed with a pressure term below zero as entered it is understated (the safe side). Said as a
 // system warning with its numbers. Pure; quantities as tokens (engine quantityText.ts).
+import { G0 } from "~/engine"; // standard gravity, m/s², as the engine's NPSHa
 import { qt, qtExact, qtPair } from "~/engine/quantityText";
 import type { SystemInput } from "./system-input";
-
-/** Standard gravity, m/s² (CGPM 1901), as the NPSHa of hydraulics.ts. */
-const G0 = 9.80665;
 
 /**
  * The warning for a suction surface pressure at or below the vapour pressure (the flip: p_surface ≤ p_vapour), or null.
