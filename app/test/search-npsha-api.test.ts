@@ -8,7 +8,6 @@
 // invented NPSH probes (app/test/npsh-probe.ts), with and without an NPSHr column.
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -19,6 +18,7 @@ import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { npshProbeProject, npshProbeSystem } from "./npsh-probe";
 
 afterAll(() => closeDb());
@@ -41,11 +41,7 @@ async function apiRead(s: Side, id: number): Promise<SearchAnswer> {
 }
 
 async function pageStats(s: Side, id: number) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${id}/search`, params: { id: String(id) }, cookie: s.m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${id}/search`], hydrationData: { loaderData: { "0": r.body } } } as never))
-    .replace(/<!-- -->/g, "").replace(/&#x27;/g, "'").replace(/&quot;/g, '"');
+  const { html } = await loadedPage(s.m, searchPage, "/systems/:id/search", `/systems/${id}/search`, { id: String(id) });
   const text = (testId: string) => (new RegExp(`data-testid="${testId}"[^>]*>(.*?)</p>`, "s").exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
   return { stats: text("search-stats"), note: text("search-npsha"), html };
 }
