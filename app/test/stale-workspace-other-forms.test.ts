@@ -13,7 +13,7 @@ import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, fieldChecks, libraries, projects, workspaces } from "@db/schema";
 import { fluidAt } from "~/engine";
-import { shareProject } from "~/lib/projects";
+import { shareAccepted } from "~/lib/projects/test-kit";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { requireMember } from "~/lib/auth/guards.server";
 import * as projectsRoute from "~/routes/projects";
@@ -141,7 +141,7 @@ describe("a field check on a selection open to both workspaces", () => {
     const sel = await storeSelection(A, a.userId, undefined, `Tabs ${Date.now()}`);
     const asA = viewerOf(await requireMember(new Request(BASE, { headers: { cookie: a.cookie } })));
     const [{ slug }] = await db().select({ slug: workspaces.slug }).from(workspaces).where(eq(workspaces.id, B));
-    expect(await shareProject(asA, sel.projectId, slug)).toMatchObject({ ok: true });
+    await shareAccepted(asA, sel.projectId, slug);
     const params = { id: String(sel.selectionId) };
     const loaded = await call(fieldRoute.loader as never, { path: `/field/selections/${sel.selectionId}`, cookie: a.cookie, params });
     expect(loaded.status).toBe(200);
