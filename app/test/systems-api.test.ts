@@ -109,7 +109,7 @@ describe("POST /api/v1/systems/:id/preview: the static heads' order", () => {
     expect(r.headers.get("content-type")).toBe("application/problem+json");
     const errors = (r.body as { errors: { field: string; message: string }[] }).errors;
     // The editor's message (system-form.ts, via staticHighBelowLow), written out in SI for a token.
-    expect(errors).toEqual([{ field: "input.staticHigh", message: expect.stringMatching(/^The static head at high level, 26(\.0+)? m, is below the one at low level, 30(\.0+)? m: high level is the most lift/) }]);
+    expect(errors).toEqual([{ field: "input.staticHigh", pointer: "/input/staticHigh", message: expect.stringMatching(/^The static head at high level, 26(\.0+)? m, is below the one at low level, 30(\.0+)? m: high level is the most lift/) }]);
     // Control: the same band the right way round, one level, and a closed loop (its static heads unused) all preview.
     expect((await preview({ ...booster(), staticLow: 26, staticHigh: 30 })).status).toBe(200);
     expect((await preview({ ...booster(), staticLow: 28, staticHigh: 28 })).status).toBe(200);

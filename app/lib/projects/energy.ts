@@ -29,6 +29,7 @@ import {
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -40,6 +41,12 @@ export const MAX_PROFILE_STEPS = 8;
 /** Life-cycle years: a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS (the form reads its count to these). */
 export const MIN_LCC_YEARS = 1;
 export const MAX_LCC_YEARS = 50;
+
+/** A life-cycle rate in the schema: the form's words (lcc-ranges.ts) for every refusal. */
+const rate = (r: RateRange) => {
+  const words = (i: { input: unknown }) => rateRefusal(r, typeof i.input === "number" ? i.input : null);
+  return v.pipe(v.number(words), v.check((x) => Number.isFinite(x) && x >= r.min && x <= r.max, words));
+};
 
 export const DutyStepSchema = v.object({
   // 0 %: hours with the system at zero demand, the pump stopped (engine dutyCycle.ts `no-demand`).
@@ -54,8 +61,8 @@ export const EnergySettingsSchema = v.pipe(
     profile: v.nullable(v.pipe(v.array(DutyStepSchema), v.minLength(1, "Give at least one step, or use the common-practice profile."), v.maxLength(MAX_PROFILE_STEPS, `At most ${MAX_PROFILE_STEPS} steps.`))),
     /** Life-cycle cost: years, tariff escalation and discount rate per year (fractions). */
     years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(MIN_LCC_YEARS, `At least ${MIN_LCC_YEARS} year.`), v.maxValue(MAX_LCC_YEARS, `At most ${MAX_LCC_YEARS} years.`)),
-    escalation: v.pipe(num("Tariff escalation"), v.minValue(-0.5, "Escalation at least −50 % a year."), v.maxValue(1, "Escalation at most 100 % a year.")),
-    discountRate: v.pipe(num("Discount rate"), v.minValue(0, "Discount rate at least 0 %."), v.maxValue(1, "Discount rate at most 100 % a year.")),
+    escalation: rate(ESCALATION_RANGE),
+    discountRate: rate(DISCOUNT_RANGE),
   }),
   v.rawCheck(({ dataset, addIssue }) => {
     if (!dataset.typed || !dataset.value.profile) return;
