@@ -9,20 +9,27 @@ import { energyField, readEnergyForm } from "./energy-form";
 import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, storedSizeNote, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, rangeText, ROUGHNESS_RANGE, SHOWN_PRECISION, type NumberRange } from "./run-ranges";
 
-/** Fittings offered in the editor (ids of app/engine/fittings.ts). */
+/** Fittings offered in the editor: every fitting of app/engine/fittings.ts (system-form-fittings.test.ts), so none is lost on a save. */
 export const EDITOR_FITTINGS = [
   ["elbow-90-standard", "90° elbows"],
   ["elbow-90-long-radius", "90° long bends"],
   ["elbow-45-standard", "45° elbows"],
+  ["return-bend", "180° return bends"],
   ["tee-run", "Tees (run)"],
   ["tee-branch", "Tees (branch)"],
   ["gate-valve-open", "Gate valves"],
   ["ball-valve-open", "Ball valves"],
   ["butterfly-valve-open", "Butterfly valves"],
   ["globe-valve-open", "Globe valves"],
+  ["angle-valve-open", "Angle valves"],
+  ["plug-valve-open", "Plug valves"],
   ["swing-check", "Swing checks"],
+  ["lift-check", "Lift checks"],
   ["foot-valve-strainer", "Foot valve + strainer"],
+  ["foot-valve-poppet", "Foot valve + strainer (poppet)"],
   ["entrance-sharp", "Entrance (sharp)"],
+  ["entrance-projecting", "Entrance (projecting)"],
+  ["entrance-rounded", "Entrance (rounded)"],
   ["exit", "Exit into tank"],
 ] as const;
 
