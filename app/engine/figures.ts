@@ -16,7 +16,7 @@ import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
-import { fmtNumExact, fmtPctExact, qt, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPctExact, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -265,7 +265,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
     if (status === "cavitation-risk")
       warnings.push({ code: "npsh-cavitation", message: available > 0 && required !== null
-        ? `NPSHa ${qtExact("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
+        ? `NPSHa ${qtAboveZero("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
         // NPSHa at or below zero decides alone, NPSHr known or not (the liquid would boil at the inlet whatever the pump):
         // read by NPSHa, as the band's corners are, never as "below NPSHr".
         : `NPSHa ${qtExact("head", available, [0])} is not above zero: cavitation risk whatever the pump${required === null ? " (the curve has no NPSHr at this flow)" : "'s NPSHr"}` });

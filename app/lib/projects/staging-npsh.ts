@@ -14,7 +14,7 @@ import {
   type PreparedSystem,
   type PumpCurve,
 } from "~/engine";
-import { fmtNumExact, fmtPct, qt, qtExact } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct, qt, qtAboveZero, qtExact } from "~/engine/quantityText";
 
 /** The rule in words, with the wanted ratio (dimensionless), as each warning states it. */
 export const stagedNpshRule = (wanted: number): string =>
@@ -55,7 +55,7 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
     const nr = atFull == null ? null : atFull * speed * speed;
     const na = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure, density: fluid.density, staticSuctionHead: input.suction.staticHead, suctionLoss: suctionLoss(input.prepared, s.flow, "aged").headLoss });
     const where = `NPSH at ${Math.round(s.flowFraction * 100)} % flow, ${k} of ${n} pumps running: each takes ${qt("flow", share)} of the step's ${qt("flow", s.flow)}, further out on its curve than with all ${n} running (${qt("flow", s.flow / n)} each)`;
-    const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
+    const npsha = `NPSHa ${qtAboveZero("head", na, [nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
     const npshr = `NPSHr ${nr == null ? "" : qtExact("head", nr, [na])} of one pump at its share${speed !== 1 ? ` at ${fmtPct(speed)} speed (NPSHr ∝ N², affinity laws)` : ""}`;
     if (!(na > 0)) {
       out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: "cavitation-risk", message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });

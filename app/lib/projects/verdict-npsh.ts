@@ -3,7 +3,7 @@
 // that "meets the duty" while it cavitates is no pump to sign, so wherever the verdict is shown as a headline (the
 // candidates table, the report, the search row, the chart's label, the CSV) a cavitation risk or a low NPSH margin
 // qualifies it on the same line, with its rule and numbers. Pure; quantities as tokens (quantityText.ts).
-import { qtExact } from "~/engine/quantityText";
+import { qtAboveZero, qtExact } from "~/engine/quantityText";
 import { marginRatioText } from "./npsh-ratio";
 import type { NpshJudgement } from "./candidate-judgement";
 
@@ -27,10 +27,10 @@ export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string 
   const ratio = marginRatioText(r, wanted); // "< 0.01" just above zero, as the table
   if (n.status === "cavitation-risk") {
     return a != null && required != null
-      ? `NPSHa ${qtExact("head", a, [required])} below NPSHr ${qtExact("head", required, [a])} at ${n.at} (NPSHa / NPSHr ${ratio}, below 1): cavitation risk`
+      ? `NPSHa ${qtAboveZero("head", a, [required])} below NPSHr ${qtExact("head", required, [a])} at ${n.at} (NPSHa / NPSHr ${ratio}, below 1): cavitation risk`
       : `NPSHa / NPSHr ${ratio} at ${n.at}, below 1: cavitation risk`;
   }
-  const pair = a != null && required != null ? ` (NPSHa ${qtExact("head", a, [required])} / NPSHr ${qtExact("head", required, [a])})` : "";
+  const pair = a != null && required != null ? ` (NPSHa ${qtAboveZero("head", a, [required])} / NPSHr ${qtExact("head", required, [a])})` : "";
   return `NPSHa / NPSHr ${ratio} at ${n.at}${pair}, below the wanted ${wanted ?? "margin"}: low NPSH margin`;
 }
 
