@@ -48,10 +48,13 @@ const PASSES: readonly string[] = ["meets", "oversized"];
  * @param n the judgement (`npshOverBand`), status "unknown"; flows m³/s, ratios dimensionless
  */
 export function npshNotCheckedText(n: NpshJudgement): string {
-  const noNpshr = (n.judgedAt ?? []).filter((p) => p.flow != null && p.marginRatio == null && !(p.available != null && p.available <= 0));
+  const unjudged = (n.judgedAt ?? []).filter((p) => p.flow != null && p.marginRatio == null && !(p.available != null && p.available <= 0));
+  const noNpshr = unjudged.filter((p) => p.required == null);
+  const tiny = unjudged.filter((p) => p.required != null); // an NPSHr so small that NPSHa / NPSHr is no number (engine npshMarginRatio)
   const noPoint = (n.unjudged ?? []).filter((u) => u.why === "no operating point").map((u) => u.at);
   const parts: string[] = [];
   if (noNpshr.length) parts.push(`the curve publishes no NPSHr at ${noNpshr.map((p) => `${qt("flow", p.flow!)} (${p.at})`).join(", ")}`);
+  if (tiny.length) parts.push(`the curve's NPSHr is too small to judge against at ${tiny.map((p) => `${qt("flow", p.flow!)} (${p.at}: ${qt("head", p.required!)})`).join(", ")}`);
   if (noPoint.length) parts.push(`no operating point at ${noPoint.join(", ")}`);
   if (!parts.length) parts.push(n.unjudged?.length ? n.unjudged.map((u) => `${u.at} (${u.why})`).join(", ") : "the NPSH status over the band is unknown");
   const judged = n.marginRatio != null && n.at ? `; where judged, the lowest NPSHa / NPSHr is ${marginRatioText(n.marginRatio, n.requiredMargin)} at ${n.at}` : "";
