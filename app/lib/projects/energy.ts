@@ -11,6 +11,7 @@ import {
   DEFAULT_DRIVE_EFFICIENCY,
   defaultCirculatorProfile,
   dutyCycleEnergy,
+  neverRunMarked,
   PARALLEL_STAGING_RULE,
   stagedDutyCycleEnergy,
   EngineInputError,
@@ -355,7 +356,9 @@ export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" 
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {
-  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => w.message);
+  const hours = (cycle.steps?.[i] as { hours?: number } | undefined)?.hours;
+  // A step of 0 h: every note marked as information only (engine `neverRunMarked`; once, also for cycles frozen before the mark).
+  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => neverRunMarked(w.message, hours));
 }
 
 /**

@@ -5,6 +5,7 @@
 // below 1, or NPSHa at or below zero whatever the pump, a cavitation risk. Pure. Units: SI (m³/s, m, Pa).
 import {
   COUNTED_STEP_STATUSES,
+  markNeverRun,
   npshAvailable,
   npshrAt,
   npshStatus,
@@ -39,7 +40,9 @@ export type StagedNpshInput = {
  * Warnings at each counted step where fewer than all duty pumps run (`parameter` "profile[i]", shown at the step): a low
  * margin or a cavitation risk with NPSHa, NPSHr, their ratio and the rule; "not judged" where the curve has no NPSHr at
  * one pump's share. Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
- * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met.
+ * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met. A step of
+ * 0 h a year is judged too, its warning marked "(0 h a year: information only)" as every note at such a step
+ * (engine `markNeverRun`); it qualifies no verdict (verdict-staged-npsh.ts).
  */
 export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] {
   const out: StagedNpshWarning[] = [];
@@ -71,5 +74,6 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
     const verdict = status === "cavitation-risk" ? "below 1, NPSHa below NPSHr: cavitation risk" : `below the wanted ${wanted}: low NPSH margin`;
     out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: status === "cavitation-risk" ? "cavitation-risk" : "low-margin", message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
   });
+  markNeverRun(input.cycle.steps, out);
   return out;
 }
