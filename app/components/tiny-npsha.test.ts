@@ -3,7 +3,7 @@
 // (tiny-ratio.test.ts). Now NPSHa above zero and below the 0.001 its unit shows at three decimals reads "< 0.001 m" ("< 0.001
 // ft" in US units), on every surface that prints it as text: the candidates table's NPSHa / NPSHr row (system page and
 // report), the band's points (table and search row), the verdict's NPSH qualifier, the engine's cavitation warning, the
-// search page's count of pumps left out for NPSH, a staged step's NPSH warning. At 0.001 in the unit shown and above, as
+// search page's count of pumps left out for NPSH, a staged step's NPSH warning, the chart's readout and table view. At 0.001 in the unit shown and above, as
 // before; at or below zero, as before (NPSHa is then said "at or below zero"). CSV and JSON keep the number.
 // Check values: 1e-15 m and 1 ft = 0.3048 m (exact, by definition), so 0.001 ft = 0.0003048 m; NPSHr 2.25 m is made up;
 // the floor 0.001 is the three decimals the magnitude rule shows below 1 (quantityText.ts `decimalsFor`).
@@ -19,6 +19,10 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate } from "~/lib
 import { selectionCsv } from "~/lib/projects/selection-export.server";
 import type { FrozenSelection } from "~/lib/projects/selections.server";
 import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
+import { formatNpshaValue } from "./chart/format";
+import { buildChartModel } from "./chart/model";
+import { readoutText } from "./chart/readout";
+import { linePump } from "./chart/test-pumps";
 
 const NPSHR = 2.25; // m, made up
 const FT = 0.3048; // m, exact
@@ -93,5 +97,20 @@ describe("a selection at NPSHa 1e-15 m above zero: the CSV keeps the number", ()
     const frozen = { result: r, system: { name: "S", input: { ...defaultSystemInput(), suctionStaticHead: hi } }, project: { name: "P" }, systemCurve: null, adjustment: DEFAULT_ADJUSTMENT, pump: { library: { name: "L", revision: 1 }, model: "M", points }, energy: null } as unknown as FrozenSelection;
     const row = Papa.parse<string[]>(selectionCsv(1, "t", frozen).trim()).data.find((x) => x[0] === "figures" && x[1] === "npsh_available")!;
     expect(Math.abs(Number(row[2]) / a - 1)).toBeLessThan(1e-9); // the number, to the CSV's 10 significant digits
+  });
+});
+
+describe("the chart's readout and table view: NPSHa above zero and below 0.001 reads '< 0.001' (it read '0.000', as at zero)", () => {
+  it("the value rule, flipping at 0.001 in the chart's unit; zero and below as before", () => {
+    expect(formatNpshaValue(1e-15)).toBe("< 0.001");
+    expect(formatNpshaValue(0.000999)).toBe("< 0.001");
+    expect(formatNpshaValue(0.001)).toBe("0.001");
+    expect(formatNpshaValue(0)).toBe("0");
+    expect(formatNpshaValue(-0.25)).toBe("-0.250");
+  });
+  it("the cursor's readout names NPSHa '< 0.001 m' on an NPSHa curve a hair above zero", () => {
+    const npsha = [{ flow: 0, y: 1e-15 }, { flow: 0.2, y: 1e-15 }]; // m, flat just above zero (made up)
+    const model = buildChartModel({ unitSystem: SI_UNITS, pumps: [linePump({ id: "a", label: "Pump a" })], npsha });
+    expect(readoutText(model, 0.1)).toContain("NPSHa (aged pipe): NPSH < 0.001 m");
   });
 });
