@@ -1,7 +1,8 @@
 // What a duty cycle says about its steps, as the system page's step table and the selection report show it: a step
 // that is not met or not computed says so with the engine's message (its rule and numbers), and the engine's warnings
 // are shown at the step they name (`parameter` "profile[i]", app/engine/dutyCycle.ts) or under the table. Pure.
-import { NEVER_RUN_NOTE, neverRunMarked, STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
+import { neverRunMarked } from "~/engine/cycleTotals";
+import { NEVER_RUN_NOTE, STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
 import { fmtPctExact } from "~/engine/quantityText";
 import { fmtNum } from "~/lib/shared/units";
 import { amountText } from "~/components/energy-numbers";

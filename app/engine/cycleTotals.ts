@@ -10,7 +10,8 @@ import type { StepResult, StepStatus } from "./dutyCycle.ts";
 /**
  * The mark on every note at a step of 0 h a year (decision "npshzero"): such a step never runs, so what is said at it — a
  * motor into its service factor or overloading, the BEP, a staged step's NPSH — is shown with its figures but is no finding
- * about the pump as it will run (it qualifies no verdict and leaves no cycle incomplete).
+ * about the pump as it will run (it qualifies no verdict and leaves no cycle incomplete). The two functions below are text
+ * helpers, not part of the engine's public face (index.ts exports the mark only): the app imports them by path.
  */
 export const NEVER_RUN_NOTE = "(0 h a year: information only)";
 

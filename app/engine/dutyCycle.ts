@@ -125,7 +125,7 @@ export const PART_LOAD_SOURCE = "motor and drive part-load factors: common pract
 /** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
 export type StepStatus = "ok" | "gravity-flow" | "no-demand" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
-export { COUNTED_STEP_STATUSES, NEVER_RUN_NOTE, markNeverRun, neverRunMarked } from "./cycleTotals.ts";
+export { COUNTED_STEP_STATUSES, NEVER_RUN_NOTE } from "./cycleTotals.ts";
 
 export interface StepResult {
   flowFraction: number;

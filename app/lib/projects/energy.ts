@@ -11,7 +11,6 @@ import {
   DEFAULT_DRIVE_EFFICIENCY,
   defaultCirculatorProfile,
   dutyCycleEnergy,
-  neverRunMarked,
   PARALLEL_STAGING_RULE,
   stagedDutyCycleEnergy,
   EngineInputError,
@@ -30,6 +29,7 @@ import {
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
+import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";

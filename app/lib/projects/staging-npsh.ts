@@ -3,9 +3,9 @@
 // needs more NPSH; the suction still carries the step's whole flow Q. Judged by the rule the candidate's own NPSH is
 // judged by (engine figures.ts `npshStatus`, common practice): NPSHa / NPSHr at least the system's wanted margin ratio;
 // below 1, or NPSHa at or below zero whatever the pump, a cavitation risk. Pure. Units: SI (m³/s, m, Pa).
+import { markNeverRun } from "~/engine/cycleTotals";
 import {
   COUNTED_STEP_STATUSES,
-  markNeverRun,
   npshAvailable,
   npshrAt,
   npshStatus,
