@@ -60,7 +60,7 @@ import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
-import { cycleTotals } from "./cycleTotals.ts";
+import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
 import { noSpeedMeets } from "./stepNoSpeed.ts";
 
@@ -125,7 +125,7 @@ export const PART_LOAD_SOURCE = "motor and drive part-load factors: common pract
 /** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
 export type StepStatus = "ok" | "gravity-flow" | "no-demand" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
-export { COUNTED_STEP_STATUSES } from "./cycleTotals.ts";
+export { COUNTED_STEP_STATUSES, NEVER_RUN_NOTE } from "./cycleTotals.ts";
 
 export interface StepResult {
   flowFraction: number;
@@ -378,5 +378,6 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     };
   });
   const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, units);
+  markNeverRun(steps, warnings); // a 0 h step's notes: information only (cycleTotals.ts)
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

@@ -4,7 +4,7 @@
  * at the step with its flow as a percentage of the BEP flow at the speed it runs at, its hours and the rule. Below
  * `STEP_MIN_FLOW_FRACTION` (50 % of BEP flow) the wording is stronger: a common lower bound for continuous running, where
  * a typical minimum continuous stable flow lies (common practice, from memory: check the maker's minimum flow).
- * A note, never a failure: hours off the BEP wear a pump (recirculation, heating, vibration, bearing and seal life), they
+ * A note, never a failure (and at a step of 0 h, information only): hours off the BEP wear a pump (recirculation, heating, vibration, bearing and seal life), they
  * do not stop it meeting the step.
  * The BEP flow at a speed ratio n follows the affinity laws: Q_BEP(n) = Q_BEP × n (Q ∝ N), so a drive that slows the pump
  * on a friction-only system keeps it near its BEP while a throttled fixed-speed pump moves left of it.
@@ -51,13 +51,14 @@ export const STEP_POR_CODES = ["step-outside-por", "step-below-min-flow"] as con
 
 /**
  * The note at a step that runs outside the POR, or null: inside it (70–120 % inclusive, as the design point's `inPor`),
- * 0 h a year, no flow, or no BEP on the curve.
+ * no flow, or no BEP on the curve. A step of 0 h a year gets its note too, which the cycle marks as information only
+ * (cycleTotals.ts `markNeverRun`), as every other note at such a step (it gave none: two rules for one step).
  * @param input see {@link StepPorInput} (SI: m³/s, h; ratios dimensionless)
  */
 export function stepPorWarning(input: StepPorInput): StepPorWarning | null {
   const { curve, flow, speed, hours, units } = input;
   const bep = curve.bep;
-  if (!bep || !(hours > 0) || !(flow > 0) || !(speed > 0)) return null;
+  if (!bep || !(hours >= 0) || !(flow > 0) || !(speed > 0)) return null;
   // One pump's flow and BEP flow at this speed: in parallel the curve's are the pumps' together (k × one's).
   const per = input.arrangement === "parallel" ? units : 1;
   const share = flow / per;

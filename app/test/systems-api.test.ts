@@ -203,7 +203,7 @@ describe("searchResultView (pure)", () => {
     const point = (ratio: number) => ({ at: "least lift, new pipe", flow: 0.01, available: 2 * ratio, required: 2, marginRatio: ratio });
     const npsh = (ratio: number) => ({ status: ratio < 1 ? "cavitation-risk" : ratio < 1.1 ? "low-margin" : "ok", marginRatio: ratio, at: "least lift, new pipe", available: 2 * ratio, rule: "r", requiredMargin: 1.1, judgedAt: [point(ratio)] });
     expect(searchResultView({ ...base, verdict, npsh: npsh(1.2) }).verdictNpsh).toBeNull();
-    expect(searchResultView({ ...base, verdict, npsh: npsh(0.81) }).verdictNpsh).toBe("but NPSHa ⟦head|1.62|2⟧ below NPSHr ⟦head|2|1.62⟧ at least lift, new pipe (NPSHa / NPSHr 0.81, below 1): cavitation risk");
+    expect(searchResultView({ ...base, verdict, npsh: npsh(0.81) }).verdictNpsh).toBe("but NPSHa ⟦head|1.62|zero:2⟧ below NPSHr ⟦head|2|1.62⟧ at least lift, new pipe (NPSHa / NPSHr 0.81, below 1): cavitation risk");
     expect(searchResultView({ ...base, verdict: null, npsh: npsh(0.81) }).verdictNpsh).toBeNull();
   });
   test("passes the band's NPSH judgement through (its NPSHa null when a stored one lacks it), null without", () => {

@@ -30,6 +30,7 @@ import {
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
+import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import type { SystemInput } from "./system-input";
@@ -362,7 +363,9 @@ export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" 
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {
-  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => w.message);
+  const hours = (cycle.steps?.[i] as { hours?: number } | undefined)?.hours;
+  // A step of 0 h: every note marked as information only (engine `neverRunMarked`; once, also for cycles frozen before the mark).
+  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => neverRunMarked(w.message, hours));
 }
 
 /**
