@@ -58,7 +58,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
@@ -357,7 +357,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
     // The service factor is a limit, as given (fmtPctLimit: 1.155 → "115.5 %"); the load to its decimals at the least, apart from it.
-    const sfText = fmtPctLimit(sf), sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
+    const { text: sfText, decimals: sfDecimals } = pctLimitWithDecimals(sf);
     if (!limitCovers(motorLimit(rating, sf), shaft))
       warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], sfDecimals)} load, above its rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
     // Above the rating but within rating × service factor: not an overload, but the step runs into the service factor for

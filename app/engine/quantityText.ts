@@ -218,6 +218,16 @@ export function fmtPctLimit(x: number): string {
 }
 
 /**
+ * A limit as a percentage (`fmtPctLimit`) and the decimals it is written to, for a value shown beside it to at least
+ * as many: a service factor 1.155 → { text: "115.5 %", decimals: 1 }.
+ * @param x the fraction (dimensionless)
+ */
+export function pctLimitWithDecimals(x: number): { text: string; decimals: number } {
+  const text = fmtPctLimit(x);
+  return { text, decimals: (/\.(\d+)/.exec(text)?.[1] ?? "").length };
+}
+
+/**
  * One side of a tolerance, with its sign: "−2.5 %", "+10 %", and "0 %" for none (never "−0 %", which reads as a
  * signed zero beside the limit it gives).
  * @param x the allowance on that side, a fraction ≥ 0 (dimensionless)
