@@ -9,32 +9,17 @@
 // the invented NPSH probes (app/test/npsh-probe.ts), with and without their NPSHr column.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createApiToken } from "~/lib/auth/api-tokens.server";
-import type { Viewer } from "~/lib/libraries";
-import { viewerOfUser } from "~/lib/projects/test-kit";
 import { searchForSystem } from "~/lib/projects";
-import * as apiSearch from "~/routes/api.v1.systems.$id.search";
-import { call, makeMember, type TestMember } from "./harness";
-import { npshProbeProject, npshProbeSystem } from "./npsh-probe";
+import { npshProbeSide, npshProbeSystem, probeSearchApi, type NpshProbeSide } from "./npsh-probe";
 
 afterAll(() => closeDb());
 
 type Row = { model: string; verdict: { status: string } | null; verdictNpsh: string | null; npsh: { status: string } | null; figures: { npshRequired: number | null } };
 type Answer = { npshaAtDuty: number; npshaNote: string | null; stats: { rejectedByNpsh: number }; results: Row[] };
-type Side = { m: TestMember; v: Viewer; projectId: number; token: string };
+type Side = NpshProbeSide;
 
-async function side(npshr: boolean): Promise<Side> {
-  const m = await makeMember("admin");
-  const v = await viewerOfUser(m.userId);
-  const projectId = await npshProbeProject(v, { npshr });
-  const token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "r", scope: "read" })).token;
-  return { m, v, projectId, token };
-}
-async function read(s: Side, id: number): Promise<Answer> {
-  const r = await call(apiSearch.loader as never, { path: `/api/v1/systems/${id}/search`, params: { id: String(id) }, headers: { authorization: `Bearer ${s.token}` } });
-  expect(r.status).toBe(200);
-  return r.body as Answer;
-}
+const side = npshProbeSide;
+const read = (s: Side, id: number) => probeSearchApi<Answer>(s, id);
 /** Systems whose NPSHa at the duty is each offset (m): the suction static head moved from a probe's by the difference. */
 async function atNpsha(s: Side, offsets: number[]): Promise<number[]> {
   const a0 = (await searchForSystem(s.v, await npshProbeSystem(s.v, s.projectId, 0))).npshaAtDuty!;

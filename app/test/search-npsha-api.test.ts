@@ -10,35 +10,20 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createApiToken } from "~/lib/auth/api-tokens.server";
-import type { Viewer } from "~/lib/libraries";
-import { viewerOfUser } from "~/lib/projects/test-kit";
 import { searchForSystem } from "~/lib/projects";
-import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
-import { call, makeMember, type TestMember } from "./harness";
 import { loadedPage } from "./render-page";
-import { npshProbeProject, npshProbeSystem } from "./npsh-probe";
+import { npshProbeSide, npshProbeSystem, probeSearchApi, type NpshProbeSide } from "./npsh-probe";
 
 afterAll(() => closeDb());
 
-type Side = { m: TestMember; v: Viewer; projectId: number; token: string };
+type Side = NpshProbeSide;
 type SearchAnswer = { npshaAtDuty: number | null; npshaNote: string | null; stats: { rejectedByNpsh: number; matched: number }; results: unknown[] };
 
-async function side(npshr: boolean): Promise<Side> {
-  const m = await makeMember("admin");
-  const v = await viewerOfUser(m.userId);
-  const projectId = await npshProbeProject(v, { npshr });
-  const token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "r", scope: "read" })).token;
-  return { m, v, projectId, token };
-}
+const side = npshProbeSide;
 
-async function apiRead(s: Side, id: number): Promise<SearchAnswer> {
-  const r = await call(apiSearch.loader as never, { path: `/api/v1/systems/${id}/search`, params: { id: String(id) }, headers: { authorization: `Bearer ${s.token}` } });
-  expect(r.status).toBe(200);
-  return r.body as SearchAnswer;
-}
+const apiRead = (s: Side, id: number) => probeSearchApi<SearchAnswer>(s, id);
 
 async function pageStats(s: Side, id: number) {
   const { html } = await loadedPage(s.m, searchPage, "/systems/:id/search", `/systems/${id}/search`, { id: String(id) });

@@ -41,6 +41,19 @@ function systemOf(points: { flow: number; head: number; efficiency: number | nul
   return { ...base, staticLow: bep.head * 0.6, staticHigh: bep.head * 0.62, duty: { flow: bep.flow, head: bep.head * 0.7 }, runs: base.runs.map((r) => ({ ...r, diameter: d })) };
 }
 
+/** The least NPSHa the candidate is judged at as the system stands (null: the engine refuses the curve, or judges none). */
+function leastNpsha(input: SystemInput, s: Parameters<typeof evaluateCandidate>[1], adj: Parameters<typeof evaluateCandidate>[2]): number | null {
+  let r0: R;
+  try {
+    r0 = evaluateCandidate(input, s, adj);
+  } catch (e) {
+    expect(e).toBeInstanceOf(EngineInputError);
+    return null;
+  }
+  const avail = (r0.npsh.judgedAt ?? []).map((p) => p.available).filter((a): a is number => a != null);
+  return avail.length ? Math.min(...avail) : null;
+}
+
 describe("property: every demo curve at NPSHa just above, at and below zero", () => {
   it(`sweeps ${demoCurves.length} curve sets × ${OFFSETS.length} NPSHa × speed-set and as published: no surface says a pump passes NPSH`, () => {
     let passing = 0, judged = 0;
@@ -49,16 +62,8 @@ describe("property: every demo curve at NPSHa just above, at and below zero", ()
       const base = systemOf(s.points);
       for (const method of ["none", "speed"] as const) {
         const adj = { ...DEFAULT_ADJUSTMENT, method };
-        let r0: R;
-        try {
-          r0 = evaluateCandidate(base, s, adj);
-        } catch (e) {
-          expect(e).toBeInstanceOf(EngineInputError);
-          continue;
-        }
-        const avail = (r0.npsh.judgedAt ?? []).map((p) => p.available).filter((a): a is number => a != null);
-        if (!avail.length) continue;
-        const least = Math.min(...avail);
+        const least = leastNpsha(base, s, adj);
+        if (least === null) continue;
         for (const t of OFFSETS) {
           const input = { ...base, suctionStaticHead: base.suctionStaticHead + t - least };
           const r = evaluateCandidate(input, s, adj);
@@ -94,16 +99,8 @@ describe("property: every demo curve at NPSHa just above, at and below zero", ()
       if (s.points.filter((p) => p.npshr != null).length < 2) continue; // fewer than two NPSHr points: no NPSHr curve at all, as the no-NPSHr case
       for (const method of ["none", "speed"] as const) {
         const adj = { ...DEFAULT_ADJUSTMENT, method };
-        let r0: R;
-        try {
-          r0 = evaluateCandidate(base, s, adj);
-        } catch (e) {
-          expect(e).toBeInstanceOf(EngineInputError);
-          continue;
-        }
-        const avail = (r0.npsh.judgedAt ?? []).map((p) => p.available).filter((a): a is number => a != null);
-        if (!avail.length) continue;
-        const least = Math.min(...avail);
+        const least = leastNpsha(base, s, adj);
+        if (least === null) continue;
         for (const t of [...OFFSETS, 50]) { // 50 m: far above any NPSHr, where only the missing NPSHr stands between the pump and "ok"
           const input = { ...base, suctionStaticHead: base.suctionStaticHead + t - least };
           const r = evaluateCandidate(input, s, adj);
