@@ -12,7 +12,7 @@ const PROJECT = "Harbourside Offices — chilled water";
 test("an offered project opens to the contractor only once their admin accepts it (no JavaScript)", async ({ page }) => {
   await signIn(page, "engineer@kestrel.example");
   await page.goto("/projects");
-  const href = await page.getByRole("link", { name: PROJECT }).getAttribute("href");
+  const href = await page.getByRole("link", { name: PROJECT, exact: true }).getAttribute("href");
   expect(href).toMatch(/^\/projects\/\d+$/);
   await page.goto(`${href}/share`);
   const row = page.locator("li", { hasText: "Lowmoor Commissioning (lowmoor)" });
