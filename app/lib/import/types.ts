@@ -25,7 +25,8 @@ export type ProblemCode =
   | "run-out"
   | "inconsistent"
   | "power-constant"
-  | "key-not-given";
+  | "key-not-given"
+  | "min-flow";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */
