@@ -155,6 +155,8 @@ type EvaluatedLike = {
     /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
     viscosityB?: number | null;
     viscosity?: { status: string } | null;
+    /** The maker's minimum flow as checked (verdict-min-flow.ts): its figure and the speed or trim ratio (absent: none). */
+    minFlow?: { published: number; ratio: number } | null;
   } | null;
 };
 
@@ -225,7 +227,9 @@ export function candidateEnergy(
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
       const common = { systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
-        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined };
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined,
+        // One pump's maker's minimum flow on the cycle's curve: as run (speed or trim), at the curve's speed under a drive (stepPor.ts scales it by the step's).
+        makerMinFlow: r.minFlow ? r.minFlow.published * (mode.vfd && c.adjustment.method === "speed" ? 1 : r.minFlow.ratio) : null };
       // Pumps in parallel are staged by demand (engine dutyStaging.ts) on one pump's curve: the combined curve's flows and
       // powers shared equally (combinePumps); in series every duty pump runs at every step.
       if (c.adjustment.arrangement === "parallel" && pumps > 1) {
