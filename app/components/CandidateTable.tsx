@@ -61,13 +61,14 @@ function overloadText(f: NonNullable<NonNullable<Cand["result"]>["figures"]>): s
 
 /**
  * The maker's minimum flow as the candidate runs it and the duty each running pump takes beside it (verdict-min-flow.ts), in
- * the reader's units: "none recorded" where the curve set has none; "—" for a selection frozen before it was kept.
+ * the reader's units: "none recorded" where the curve set has none; "—" for a selection frozen before it was kept. The row is
+ * shown where some candidate's curve set records a figure.
  */
 function minFlowCell(c: Cand, units: UnitChoice): React.ReactNode {
   const r = c.result;
   if (!r || r.minFlow === undefined) return "—";
   const check = readMinFlowCheck(r.minFlow);
-  if (!check) return <span className="text-slate-600">none recorded for this curve (duty-cycle steps below 50 % of BEP flow are noted by common practice)</span>;
+  if (!check) return <span className="text-slate-600">none recorded for this curve</span>;
   const per = check.dutyPerPump;
   const share = check.running > 1 ? " per running pump" : "";
   return (
@@ -124,7 +125,8 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     }],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => totalPowerText(unitSystem, c.result?.figures?.shaftPower, basisOf(c))],
-    ["Maker's minimum flow", (c) => minFlowCell(c, unitSystem)],
+    // Only where some candidate's curve set records the maker's figure (the table and the printed report stay as they were elsewhere).
+    ...(view.candidates.some((c) => readMinFlowCheck(c.result?.minFlow)) ? [["Maker's minimum flow", (c: Cand) => minFlowCell(c, unitSystem)] as [string, (c: Cand) => React.ReactNode]] : []),
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
     ["NPSHa / NPSHr (design curve)", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
     // NPSHa at or below zero: its ratio to NPSHr means nothing; NPSHa is shown.

@@ -40,7 +40,7 @@ let us: TestMember;
 let v: Viewer;
 let token = "";
 let setId = 0;
-const systems = { below: 0, at: 0 };
+const systems = { below: 0, at: 0, none: 0 };
 const selections = { below: 0, at: 0 };
 beforeAll(async () => {
   m = await makeMember("admin");
@@ -57,6 +57,12 @@ beforeAll(async () => {
     if (!added.ok) throw new Error(added.reason);
     selections[k] = await selectCandidate(v, (await systemWorkbench(v, systems[k])).candidates[0].id, `Min flow ${k}`, "");
   }
+  // The same pump from a file without the column: no figure recorded.
+  const plain = await createLibrary(v, { name: "No minimum flow", description: "" });
+  await importCsvText(v, plain, CSV.replace(",min_flow_m3h", "").replace(/,12$/gm, ""), "plain.csv");
+  systems.none = await createSystem(v, project, "Min flow none", sysAt(8));
+  const plainAdded = await addCandidate(v, systems.none, (await listModels(v, plain))[0].curves[0].id, { ...DEFAULT_ADJUSTMENT, motorRating: 3000 });
+  if (!plainAdded.ok) throw new Error(plainAdded.reason);
   token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "r", scope: "read" })).token;
 });
 
@@ -82,6 +88,10 @@ describe("a duty below the maker's minimum flow fails the verdict on every headl
       expect(at).not.toMatch(/data-testid="verdict-\d+-min-flow"/);
       expect(lineOf(at, /min-flow-\d+/)).toMatch(/: at or above it$/);
     }
+    // No figure recorded: nothing on the verdict's line, and no "Maker's minimum flow" row (the table as it was).
+    const none = await systemHtml(systems.none, m);
+    expect(none).not.toMatch(/data-testid="verdict-\d+-min-flow"/);
+    expect(textOf(none)).not.toContain("Maker's minimum flow");
   });
 
   test("systems read API: result.verdictMinFlow and result.minFlow; null at the figure", async () => {
