@@ -143,9 +143,9 @@ function flaggedRows(analysis: StoredAnalysis): { rows: FlaggedRow[]; total: num
 
 /**
  * What the mapping page needs, and no more: it is copied from the worker and sent to the browser, so
- * it stays small whatever the file's size (no per-curve list: counts are in `stats`; at most
+ * it stays small whatever the file's size (no list of every curve: counts are in `stats`; at most
  * PREVIEW_CURVES curves of at most PREVIEW_POINTS points, PROBLEM_ROWS_SHOWN problems, FLAGGED_ROWS_SHOWN rows, and the
- * maker's minimum flow of MIN_FLOW_CURVES_SHOWN curves).
+ * maker's minimum flow of the first MIN_FLOW_CURVES_SHOWN curves with their source lines, upload-min-flows.ts).
  */
 export function summarise(analysis: StoredAnalysis) {
   const { result, sniff, mapping } = analysis;
