@@ -15,6 +15,7 @@ export default [
   route("workspace", "routes/workspace.tsx"),
   route("workspace/new", "routes/workspace.new.tsx"),
   route("workspace/billing", "routes/workspace.billing.tsx"),
+  route("workspace/shares", "routes/workspace.shares.tsx"),
   route("invite/:token", "routes/invite.$token.tsx"),
   route("dev/mailbox", "routes/dev.mailbox.tsx"),
   // pump libraries

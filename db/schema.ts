@@ -27,8 +27,8 @@ export const ref = (name: string) => bigint(name, { mode: "number", unsigned: tr
 export const createdAt = () =>
   datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
 
-import { PLANS, ROLES, VISIBILITIES, type Role, type Visibility } from "./enums";
-export { PLANS, ROLES, VISIBILITIES, type Role, type Visibility };
+import { PLANS, ROLES, SHARE_STATES, VISIBILITIES, type Role, type ShareState, type Visibility } from "./enums";
+export { PLANS, ROLES, SHARE_STATES, VISIBILITIES, type Role, type ShareState, type Visibility };
 
 export const workspaces = mysqlTable(
   "workspaces",
@@ -487,6 +487,11 @@ export const projectShares = mysqlTable(
       .references(() => workspaces.id, { onDelete: "cascade" }),
     createdBy: varchar("created_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
+    /** Only an accepted share opens the project's selections to the workspace (migration 0013: rows before it were accepted). */
+    state: mysqlEnum("state", SHARE_STATES).notNull().default("pending"),
+    /** The receiving workspace's admin who accepted or declined, and when; null while pending (and on shares from before consent). */
+    decidedBy: varchar("decided_by", { length: 40 }).references(() => users.id, { onDelete: "set null" }),
+    decidedAt: datetime("decided_at", { mode: "date", fsp: 3 }),
   },
   (t) => [uniqueIndex("project_shares_uq").on(t.projectId, t.workspaceId)],
 );

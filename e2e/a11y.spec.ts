@@ -25,6 +25,7 @@ const PAGES: { who: string | null; paths: Step[] }[] = [
   },
   { who: "distributor@harrow-vell.example", paths: ["/libraries", { link: /^\/libraries\/\d+$/ }] },
   { who: "contractor@lowmoor.example", paths: ["/field", { link: /^\/field\/selections\/\d+$/ }, "/field", { link: /^\/field\/checks\/\d+$/ }] },
+  { who: "admin@lowmoor.example", paths: ["/workspace", "/workspace/shares"] },
 ];
 
 /** The first link on the open page whose path matches. */

@@ -6,7 +6,7 @@ import { signIn } from "./helpers";
 // check on document and `.data` POSTs answered 400 and logged two stacks a request) and again by the root
 // middleware. The public calculators (no cookies) and the Stripe webhook (signature) are the only exemptions.
 const UI_ACTIONS = [
-  "/signup", "/signin", "/signout", "/verify", "/forgot", "/reset", "/account", "/workspace", "/workspace/new",
+  "/signup", "/signin", "/signout", "/verify", "/forgot", "/reset", "/account", "/workspace", "/workspace/new", "/workspace/shares",
   "/workspace/billing", "/invite/abc", "/dev/mailbox", "/libraries", "/libraries/1", "/libraries/1/uploads/1",
   "/projects", "/projects/1", "/projects/1/share", "/systems/1", "/systems/1/search", "/libraries/1/trace",
 ];

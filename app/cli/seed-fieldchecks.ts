@@ -1,5 +1,6 @@
-// Demo data for field checks, idempotent: both Kestrel projects shared with Lowmoor Commissioning,
-// and one demo check recorded by Lowmoor's contractor on the first selection (no e-mail sent).
+// Demo data for field checks, idempotent: both Kestrel projects shared with Lowmoor Commissioning and accepted by its
+// admin (so the contractor's journeys start with them open), and one demo check recorded by Lowmoor's contractor on the
+// first selection (no e-mail sent).
 import { SI_UNITS } from "~/lib/shared/units";
 import { and, eq } from "drizzle-orm";
 import { db } from "../../db/client.server";
@@ -15,13 +16,14 @@ export async function seedFieldChecks(): Promise<{ shared: number; checks: numbe
   const [lowmoor] = await db().select().from(workspaces).where(eq(workspaces.slug, "lowmoor"));
   const [tom] = await db().select().from(users).where(eq(users.email, "contractor@lowmoor.example"));
   const [eng] = await db().select().from(users).where(eq(users.email, "engineer@kestrel.example"));
+  const [nell] = await db().select().from(users).where(eq(users.email, "admin@lowmoor.example"));
   if (!kestrel || !lowmoor || !tom) return { shared: 0, checks: 0 };
   let shared = 0;
   const projs = await db().select().from(projects).where(eq(projects.workspaceId, kestrel.id));
   for (const p of projs) {
     const have = await db().select({ id: projectShares.id }).from(projectShares).where(and(eq(projectShares.projectId, p.id), eq(projectShares.workspaceId, lowmoor.id)));
     if (have.length) continue;
-    await db().insert(projectShares).values({ projectId: p.id, workspaceId: lowmoor.id, createdBy: eng?.id ?? null });
+    await db().insert(projectShares).values({ projectId: p.id, workspaceId: lowmoor.id, createdBy: eng?.id ?? null, state: "accepted", decidedBy: nell?.id ?? null, decidedAt: new Date() });
     shared++;
   }
   const sels = await db().select().from(selections).where(eq(selections.workspaceId, kestrel.id)).orderBy(selections.id);

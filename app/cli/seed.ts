@@ -29,6 +29,7 @@ export const DEMO_USERS: { email: string; name: string; workspace: string; role:
   { email: "engineer@kestrel.example", name: "Ravi Patel", workspace: "kestrel", role: "engineer" },
   { email: "distributor@harrow-vell.example", name: "Mina Vell", workspace: "harrow-vell", role: "distributor" },
   { email: "contractor@lowmoor.example", name: "Tom Lowmoor", workspace: "lowmoor", role: "contractor" },
+  { email: "admin@lowmoor.example", name: "Nell Okafor", workspace: "lowmoor", role: "admin" },
   { email: "viewer@kestrel.example", name: "Iris Moss", workspace: "kestrel", role: "viewer" },
 ];
 

@@ -3,7 +3,7 @@
 // and electrical input per pump and for the duty pumps together, the largest power on the curve and the motor per pump
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
-import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQAboveZero, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
 import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
@@ -132,8 +132,11 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     // NPSHa at or below zero: its ratio to NPSHr means nothing; NPSHa is shown.
     ["NPSH margin", (c) => {
       const f = c.result?.figures;
-      if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQExact(unitSystem, "head", f.npshAvailable, [0])}, at or below zero (cavitation-risk)</span>;
-      return f?.npshMarginRatio != null ? <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span> : "—";
+      if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQAboveZero(unitSystem, "head", f.npshAvailable)}, at or below zero (cavitation-risk)</span>;
+      if (f?.npshMarginRatio != null) return <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span>;
+      // NPSHa above zero and no NPSHr there: nothing was checked, said so with the flow (decision "npshzero"), never a bare dash.
+      const q = c.result?.operating?.flow;
+      return f?.npshAvailable != null && f.npshRequired == null && q != null ? <span className="font-semibold text-duty-ink">not checked: the curve publishes no NPSHr at {fmtFlow(unitSystem, q)}</span> : "—";
     }],
     ["Largest power on curve", (c) => (c.result?.figures?.motorLimit != null && c.result.figures.maxPower != null ? `${fmtQExact(unitSystem, "power", c.result.figures.maxPower, [c.result.figures.motorLimit])}${basisOf(c) ? " per pump" : ""}` : perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c)))], // apart from the motor's limit beside it
     ["Motor", (c) => {

@@ -2,7 +2,7 @@
 // reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
 // product concludes at the edges"). Pure; used by CandidateTable in ./CandidateTable.tsx and the search page's rows.
 import { POR_FRACTION } from "~/engine";
-import { fmtPct, fmtPctExact, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { fmtPct, fmtPctExact, fmtQAboveZero, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 import { marginRatioText } from "~/lib/projects/npsh-ratio";
 import type { NpshJudgement } from "~/lib/projects/candidate-judgement";
 
@@ -35,13 +35,14 @@ export function bepPositionText(ratio: number, inPor: boolean | null | undefined
 }
 
 /**
- * NPSHa and NPSHr side by side, each with the decimals it needs not to read as the other ("3.998 m / 4.00 m").
+ * NPSHa and NPSHr side by side, each with the decimals it needs not to read as the other ("3.998 m / 4.00 m"); NPSHa above
+ * zero and below 0.001 in the unit shown "< 0.001 m" (`fmtQAboveZero`), never an exponent.
  * @param units the reader's units
  * @param available NPSHa, m
  * @param required NPSHr, m (null when the curve has none there)
  */
 export function npshPairText(units: UnitChoice, available: number, required: number | null | undefined): string {
-  return `${fmtQExact(units, "head", available, [required])} / ${fmtQExact(units, "head", required, [available], true)}`;
+  return `${fmtQAboveZero(units, "head", available, [required])} / ${fmtQExact(units, "head", required, [available], true)}`;
 }
 
 /**
@@ -60,7 +61,7 @@ export const npshMarginText = marginRatioText;
  */
 export function npshLowestText(units: UnitChoice, n: NpshJudgement): string {
   return (n.marginRatio == null || atOrBelowZero(n)) && n.available != null
-    ? `NPSHa ${fmtQExact(units, "head", n.available, [0])} at ${n.at}`
+    ? `NPSHa ${fmtQAboveZero(units, "head", n.available)} at ${n.at}`
     : `lowest ${npshMarginText(n.marginRatio, n.requiredMargin)} at ${n.at}`;
 }
 
@@ -85,7 +86,7 @@ export function npshUnjudgedText(n: NpshJudgement | null | undefined): string | 
  */
 export function npshPointsText(units: UnitChoice, n: NpshJudgement): string {
   return (n.judgedAt ?? [])
-    .map((p) => `${p.at} ${p.marginRatio != null && !atOrBelowZero(p) ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQExact(units, "head", p.available, [0])}` : "—"}`)
+    .map((p) => `${p.at} ${p.marginRatio != null && !atOrBelowZero(p) ? npshMarginText(p.marginRatio, n.requiredMargin) : p.available != null ? `NPSHa ${fmtQAboveZero(units, "head", p.available)}` : "—"}`)
     .join("; ");
 }
 

@@ -2,7 +2,8 @@
 // that is not met or not computed says so with the engine's message (its rule and numbers), and the engine's warnings
 // are shown at the step they name (`parameter` "profile[i]", app/engine/dutyCycle.ts) or under the table. A step below the
 // maker's minimum continuous flow (engine stepPor.ts `step-below-maker-min-flow`) is a line of its own, in full. Pure.
-import { STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
+import { neverRunMarked } from "~/engine/cycleTotals";
+import { NEVER_RUN_NOTE, STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
 import { fmtPctExact } from "~/engine/quantityText";
 import { fmtNum } from "~/lib/shared/units";
 import { amountText } from "~/components/energy-numbers";
@@ -38,13 +39,13 @@ export function cycleNoteLines(cycle: Cycle): string[] {
     if (s.status !== "ok") lines.push(`Step at ${stepName(s)}: ${stepVerdict(s)} — ${s.message}.`);
     for (const w of (cycle.warnings ?? []).filter((x) => x.parameter === `profile[${i}]`)) {
       const ratio = bepNoteOf(w);
-      if (ratio === null) lines.push(`Step at ${stepName(s)}: ${w.message}.`);
+      if (ratio === null) lines.push(`Step at ${stepName(s)}: ${neverRunMarked(w.message, s.hours)}.`); // a 0 h step's note: information only
       else {
         const low = ratio < STEP_MIN_FLOW_FRACTION;
         belowMin ||= low;
         const m = (w as { makerMinFlow?: unknown }).makerMinFlow;
         if (low && m !== undefined) maker = typeof m === "number" ? "recorded" : "none";
-        offBep.push(`${stepName(s)} at ${fmtPctExact(ratio, [0.7, 1.2, STEP_MIN_FLOW_FRACTION], 0)}${low ? "*" : ""}`);
+        offBep.push(`${stepName(s)} at ${fmtPctExact(ratio, [0.7, 1.2, STEP_MIN_FLOW_FRACTION], 0)}${low ? "*" : ""}${s.hours === 0 ? ` ${NEVER_RUN_NOTE}` : ""}`);
       }
     }
   });

@@ -7,6 +7,37 @@
 import type { EngineWarning } from "./errors.ts";
 import type { StepResult, StepStatus } from "./dutyCycle.ts";
 
+/**
+ * The mark on every note at a step of 0 h a year (decision "npshzero"): such a step never runs, so what is said at it — a
+ * motor into its service factor or overloading, the BEP, a staged step's NPSH — is shown with its figures but is no finding
+ * about the pump as it will run (it qualifies no verdict and leaves no cycle incomplete). The two functions below are text
+ * helpers, not part of the engine's public face (index.ts exports the mark only): the app imports them by path.
+ */
+export const NEVER_RUN_NOTE = "(0 h a year: information only)";
+
+/**
+ * A note at a step as shown: marked with {@link NEVER_RUN_NOTE} at the end when the step has 0 h (once, wherever an earlier
+ * mark stood: staging adds its words after the step's note), else as given.
+ * @param message the note (unitless text)
+ * @param hours the step's hours a year, h
+ */
+export function neverRunMarked(message: string, hours: number | null | undefined): string {
+  if (hours !== 0) return message;
+  return `${message.split(` ${NEVER_RUN_NOTE}`).join("")} ${NEVER_RUN_NOTE}`;
+}
+
+/**
+ * Marks every warning naming a step of 0 h (`parameter` "profile[i]") with {@link NEVER_RUN_NOTE}, in place.
+ * @param steps the cycle's steps (h)
+ * @param warnings the cycle's warnings (unitless), changed in place
+ */
+export function markNeverRun(steps: readonly { hours: number }[], warnings: EngineWarning[]): void {
+  for (const w of warnings) {
+    const i = /^profile\[(\d+)\]$/.exec(w.parameter ?? "")?.[1];
+    if (i !== undefined) w.message = neverRunMarked(w.message, steps[Number(i)]?.hours);
+  }
+}
+
 /** Steps whose energy is in the total (see the module comment); the others leave the cycle incomplete. */
 export const COUNTED_STEP_STATUSES: readonly StepStatus[] = ["ok", "gravity-flow", "no-demand", "throttled-at-min-on-curve-speed"];
 const stepCounted = (s: { status: string }): boolean => (COUNTED_STEP_STATUSES as readonly string[]).includes(s.status);

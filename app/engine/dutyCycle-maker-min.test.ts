@@ -5,7 +5,7 @@
 // Check values: the made-up sample curve (engine/test/curves.ts, BEP 50 m³/h at 78 %), an invented system
 // H = 15 m + 0.002 m/(m³/h)² · Q², and made-up maker's figures (no maker's data).
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, dutyCycleEnergy, EngineInputError, stagedDutyCycleEnergy, STEP_BELOW_MAKER_MIN_FLOW, type ControlMode, type DutyCycleResult } from "./index.ts";
+import { createPumpCurve, dutyCycleEnergy, EngineInputError, NEVER_RUN_NOTE, stagedDutyCycleEnergy, STEP_BELOW_MAKER_MIN_FLOW, type ControlMode, type DutyCycleResult } from "./index.ts";
 import { inSI } from "./quantityText.ts";
 import { M3H, samplePoints } from "./test/curves.ts";
 
@@ -45,11 +45,12 @@ describe("fixed speed, one pump: the step's flow against the maker's figure as g
     expect((run("fixed-speed", 0.4, null).warnings[0] as { makerMinFlow?: number | null }).makerMinFlow).toBeNull();
   });
 
-  it("inside the POR a step below the maker's figure still gets the note; 0 h and 0 % flow say nothing", () => {
+  it("inside the POR a step below the maker's figure still gets the note; at 0 h it is marked information only; 0 % flow says nothing", () => {
     expect(codes(run("fixed-speed", 0.8, 45 * M3H))).toEqual([STEP_BELOW_MAKER_MIN_FLOW]); // 40 m³/h: 80 % of BEP, below 45
     expect(codes(run("fixed-speed", 0.8, 35 * M3H))).toEqual([]); // inside the POR, above the figure
     const r = dutyCycleEnergy({ curve, systemHead: system, designFlow: QB, mode: "fixed-speed", profile: [{ flowFraction: 0.2, hours: 0 }, { flowFraction: 0, hours: 100 }], density: 1000, motor: MOTOR, driveEfficiency: null, makerMinFlow: 30 * M3H });
-    expect(codes(r)).toEqual([]);
+    // A 0 h step keeps its note, marked as every note at such a step is (cycleTotals.ts markNeverRun).
+    expect(r.warnings.filter((w) => w.code.startsWith("step-")).map((w) => [w.code, w.parameter, w.message.endsWith(NEVER_RUN_NOTE)])).toEqual([[STEP_BELOW_MAKER_MIN_FLOW, "profile[0]", true]]);
   });
 
   it("a curve with no BEP: the maker's figure is judged all the same", () => {

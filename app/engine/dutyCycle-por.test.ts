@@ -50,9 +50,11 @@ describe("fixed speed, throttled: the ratio is the step's flow over the BEP flow
     const r = dutyCycleEnergy({ curve, systemHead: single, designFlow: QB, mode: "fixed-speed", fixedSpeedRatio: 0.8, profile: [{ flowFraction: 0.699, hours: 3000 }], density: 1000, motor: MOTOR, driveEfficiency: 0.97 });
     expect(note(r)).toMatch(/^at 70 % flow the pump runs at 34\.9 m³\/h, 69\.9 % of its BEP flow, 50\.0 m³\/h,/);
   });
-  it("a step of 0 h, or at 0 % flow, says nothing; a note is not a failure (the step met, the cycle complete)", () => {
+  it("a step at 0 % flow says nothing; one of 0 h says it marked as information only (decision \"npshzero\"; it said nothing); a note is not a failure (the step met, the cycle complete)", () => {
     const r = dutyCycleEnergy({ curve, systemHead: single, designFlow: QB, mode: "fixed-speed", profile: [{ flowFraction: 0.25, hours: 0 }, { flowFraction: 0, hours: 500 }, { flowFraction: 0.25, hours: 0.01 }], density: 1000, motor: MOTOR, driveEfficiency: null });
-    expect(porCodes(r)).toEqual([["step-below-min-flow", "profile[2]"]]);
+    expect(porCodes(r)).toEqual([["step-below-min-flow", "profile[0]"], ["step-below-min-flow", "profile[2]"]]);
+    expect(r.warnings.find((w) => w.parameter === "profile[0]")!.message).toMatch(/ \(0 h a year: information only\)$/);
+    expect(r.warnings.find((w) => w.parameter === "profile[2]")!.message).not.toMatch(/information only/);
     expect(r.complete).toBe(true);
     expect(r.steps[2].status).toBe("ok");
   });

@@ -58,9 +58,9 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
-import { cycleTotals } from "./cycleTotals.ts";
+import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
 import { noSpeedMeets } from "./stepNoSpeed.ts";
 
@@ -125,7 +125,7 @@ export const PART_LOAD_SOURCE = "motor and drive part-load factors: common pract
 /** `throttled-at-min-on-curve-speed`: run at the lowest speed keeping the flow on the curve, the surplus head throttled; met, computed like `ok`. */
 export type StepStatus = "ok" | "gravity-flow" | "no-demand" | "throttled-at-min-on-curve-speed" | "beyond-curve" | "control-below-system" | "below-speed-range" | "no-power-data";
 
-export { COUNTED_STEP_STATUSES } from "./cycleTotals.ts";
+export { COUNTED_STEP_STATUSES, NEVER_RUN_NOTE } from "./cycleTotals.ts";
 
 export interface StepResult {
   flowFraction: number;
@@ -360,7 +360,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
     // The service factor is a limit, as given (fmtPctLimit: 1.155 → "115.5 %"); the load to its decimals at the least, apart from it.
-    const sfText = fmtPctLimit(sf), sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
+    const { text: sfText, decimals: sfDecimals } = pctLimitWithDecimals(sf);
     if (!limitCovers(motorLimit(rating, sf), shaft))
       warnings.push({ code: "motor-overload-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [sf], sfDecimals)} load, above its rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [(rating / units) * sf])} exceeds ${qtLimit("power", motorLimit(rating / units, sf), [shaft / units])}, so ${units === 1 ? "the" : "each"} motor overloads at this step (its efficiency taken at full load)` });
     // Above the rating but within rating × service factor: not an overload, but the step runs into the service factor for
@@ -381,5 +381,6 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     };
   });
   const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, units);
+  markNeverRun(steps, warnings); // a 0 h step's notes: information only (cycleTotals.ts)
   return { mode, steps, totalHours, annualEnergyKWh, complete, setpointHead: hSet, warnings };
 }

@@ -23,7 +23,7 @@ import { EngineInputError, requireInteger, requirePositive, type EngineWarning }
 import { ensurePumpCurve, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { combinePumps, MAX_PUMPS } from "./multiple.ts";
 import { dutyCycleEnergy, type DutyCycleInput, type DutyCycleResult, type StepResult } from "./dutyCycle.ts";
-import { cycleTotals } from "./cycleTotals.ts";
+import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 
 /** The rule in words, for every surface that shows a staged cycle (common practice, from memory). */
 export const PARALLEL_STAGING_RULE =
@@ -84,6 +84,7 @@ export function stagedDutyCycleEnergy(input: StagedDutyCycleInput): DutyCycleRes
     return { ...s, pumpsRunning: running, dutyPumps: n, pumpShaftPower: s.shaftPower == null ? null : running === 0 ? 0 : s.shaftPower / k };
   });
   const { complete, annualEnergyKWh } = cycleTotals(steps, warnings, n);
+  markNeverRun(steps, warnings); // a 0 h step's notes, the staging's words included: marked once, at the end
   const first = runs[0];
   return { mode: first.mode, steps, totalHours: first.totalHours, annualEnergyKWh, complete, setpointHead: first.setpointHead, warnings };
 }

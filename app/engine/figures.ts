@@ -16,7 +16,7 @@ import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
-import { fmtNumExact, fmtPctExact, qt, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPctExact, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -119,15 +119,17 @@ export function npshStatus(marginRatio: number | null, requiredMargin: number): 
 }
 
 /**
- * The NPSH margin ratio NPSHa / NPSHr, or null where it means nothing: no NPSHr (or NPSHr ≤ 0), or NPSHa at or below zero
- * (the liquid boils at the inlet whatever the pump: NPSHa alone decides, a cavitation risk; common practice).
+ * The NPSH margin ratio NPSHa / NPSHr, or null where it means nothing: no NPSHr (or NPSHr ≤ 0, or one so small that the
+ * ratio is no finite number: 5e-324 m, a cell taken as written), or NPSHa at or below zero (the liquid boils at the inlet
+ * whatever the pump: NPSHa alone decides, a cavitation risk; common practice).
  * @param available NPSHa, m
  * @param required NPSHr, m, null when the curve gives none
  */
 export function npshMarginRatio(available: number, required: number | null): number | null {
   requireFinite("available", available);
   if (required !== null) requireFinite("required", required);
-  return available > 0 && required !== null && required > 0 ? available / required : null;
+  const r = available > 0 && required !== null && required > 0 ? available / required : null;
+  return r !== null && Number.isFinite(r) ? r : null;
 }
 
 /** The largest shaft power found on a curve, and how far along the curve power is known. */
@@ -261,16 +263,18 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
     const marginRatio = npshMarginRatio(available, required);
     let status: NpshStatus = "unknown";
     if (available <= 0) status = "cavitation-risk";
-    else if (required !== null) status = marginRatio !== null ? npshStatus(marginRatio, requiredMargin) : available < required ? "cavitation-risk" : "low-margin"; // NPSHr 0: no ratio
+    // NPSHr with no ratio beside an NPSHa above zero (NPSHr zero, or too small for the ratio to be a number): nothing to judge
+    // against, so not judged ("unknown", said with the NPSHr), never a low margin (it read "low-margin" with no ratio).
+    else if (required !== null && marginRatio !== null) status = npshStatus(marginRatio, requiredMargin);
     // NPSHa never reads as NPSHr, nor the ratio as 1 or the required margin, beside the status they decide.
     if (status === "cavitation-risk")
       warnings.push({ code: "npsh-cavitation", message: available > 0 && required !== null
-        ? `NPSHa ${qtExact("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
+        ? `NPSHa ${qtAboveZero("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
         // NPSHa at or below zero decides alone, NPSHr known or not (the liquid would boil at the inlet whatever the pump):
         // read by NPSHa, as the band's corners are, never as "below NPSHr".
         : `NPSHa ${qtExact("head", available, [0])} is not above zero: cavitation risk whatever the pump${required === null ? " (the curve has no NPSHr at this flow)" : "'s NPSHr"}` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${fmtNumExact(marginRatio, [1, requiredMargin], 2)} is below the required ${requiredMargin}` });
-    else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: "curve has no NPSHr at this flow" });
+    else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: required === null ? "curve has no NPSHr at this flow" : `the curve's NPSHr here, ${qt("head", required)}, is too small to judge NPSHa ${qtAboveZero("head", available, [])} against (NPSHa / NPSHr is no finite number): NPSH not judged` });
     npsh = { available, required, marginRatio, requiredMargin, status };
   }
 

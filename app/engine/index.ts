@@ -43,7 +43,7 @@ export { searchDuty, type SearchOptions, type Candidate, type SearchResult } fro
 export { explainRanks } from "./searchExplain.ts";
 export {
   dutyCycleEnergy, defaultCirculatorProfile, CONTROL_MODES, CIRCULATOR_PROFILE_SHARES, CIRCULATOR_PROFILE_SOURCE, PROPORTIONAL_ZERO_FLOW,
-  MAX_FLOW_FRACTION, MAX_STEPS, MOTOR_PART_LOAD, DRIVE_PART_LOAD, PART_LOAD_SOURCE, COUNTED_STEP_STATUSES,
+  MAX_FLOW_FRACTION, MAX_STEPS, MOTOR_PART_LOAD, DRIVE_PART_LOAD, PART_LOAD_SOURCE, COUNTED_STEP_STATUSES, NEVER_RUN_NOTE,
   type ControlMode, type DutyStep, type DutyCycleInput, type DutyCycleResult, type StepResult, type StepStatus,
 } from "./dutyCycle.ts";
 export {

@@ -19,6 +19,13 @@ import { EngineInputError } from "./errors.ts";
 export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)(?:\|([^⟦⟧|]*))?⟧/g;
 /** Marks the values of a {@link qtLimit} token. */
 const LIMIT_MARK = "limit:";
+/** Marks a {@link qtAboveZero} token (a reading judged by its side of zero), before the values it reads apart from. */
+const ZERO_MARK = "zero:";
+/**
+ * A reading judged by its side of zero (NPSHa) above zero yet below this in the unit shown reads "< 0.001 m": the three
+ * decimals the magnitude rule gives below 1 would show it as 0.000, which is how NPSHa at zero reads (decision "npshzero").
+ */
+export const NEAR_ZERO_FLOOR = 0.001;
 
 /**
  * A quantity token for text: `⟦flow|0.0111⟧`.
@@ -48,6 +55,21 @@ function apartToken(quantity: Quantity, si: number, against: readonly (number | 
  */
 export function qtExact(quantity: Quantity, si: number, against: readonly (number | null | undefined)[]): string {
   return apartToken(quantity, si, against, "");
+}
+
+/**
+ * A quantity token for a reading whose side of zero decides (NPSHa: at or below zero the liquid boils at the inlet
+ * whatever the pump): `⟦head|1e-15|zero:2.25⟧`. Rendered as {@link qtExact}'s, read apart from zero too, except that
+ * above zero and below {@link NEAR_ZERO_FLOOR} in the reader's unit it reads "< 0.001 m" — never an exponent
+ * ("1.00e-15 m") nor a string of zeros (decision "npshzero", as the NPSH margin ratio's "< 0.01").
+ * @param quantity physical quantity of the value and of `against` (unitless id)
+ * @param si the reading in SI
+ * @param against the values it is compared with besides zero, in SI (missing or non-finite ones are left out)
+ */
+export function qtAboveZero(quantity: Quantity, si: number, against: readonly (number | null | undefined)[]): string {
+  if (!Number.isFinite(si)) return qt(quantity, si);
+  const others = against.filter((a): a is number => a != null && Number.isFinite(a)).map(String);
+  return `⟦${quantity}|${String(si)}|${ZERO_MARK}${others.join(",")}⟧`;
 }
 
 /**
@@ -196,6 +218,16 @@ export function fmtPctLimit(x: number): string {
 }
 
 /**
+ * A limit as a percentage (`fmtPctLimit`) and the decimals it is written to, for a value shown beside it to at least
+ * as many: a service factor 1.155 → { text: "115.5 %", decimals: 1 }.
+ * @param x the fraction (dimensionless)
+ */
+export function pctLimitWithDecimals(x: number): { text: string; decimals: number } {
+  const text = fmtPctLimit(x);
+  return { text, decimals: (/\.(\d+)/.exec(text)?.[1] ?? "").length };
+}
+
+/**
  * One side of a tolerance, with its sign: "−2.5 %", "+10 %", and "0 %" for none (never "−0 %", which reads as a
  * signed zero beside the limit it gives).
  * @param x the allowance on that side, a fraction ≥ 0 (dimensionless)
@@ -216,6 +248,23 @@ export function fmtQuantity(units: UnitPreset, q: Quantity, si: number | null | 
   if (si == null || !Number.isFinite(si)) return "—";
   const unit = units[q];
   return `${fmtNum(fromSI(q, unit, si), digits)} ${unitLabel(q, unit)}`;
+}
+
+/**
+ * A reading judged by its side of zero (NPSHa), as text in the unit chosen for its quantity: above zero and below
+ * {@link NEAR_ZERO_FLOOR} in that unit "< 0.001 m"; otherwise as {@link fmtQuantityExact}, read apart from zero and from
+ * `against` (a tiny negative value as before: the text beside it says "at or below zero").
+ * @param units unit id per quantity (unitless ids)
+ * @param q physical quantity of the value and of `against` (unitless id)
+ * @param si the value in SI
+ * @param against the values it is compared with besides zero, in SI
+ */
+export function fmtQuantityAboveZero(units: UnitPreset, q: Quantity, si: number | null | undefined, against: readonly (number | null | undefined)[] = []): string {
+  if (si == null || !Number.isFinite(si)) return "—";
+  const unit = units[q];
+  const v = fromSI(q, unit, si);
+  if (v > 0 && v < NEAR_ZERO_FLOOR) return `< ${NEAR_ZERO_FLOOR} ${unitLabel(q, unit)}`;
+  return fmtQuantityExact(units, q, si, [0, ...against]);
 }
 
 /**
@@ -251,9 +300,12 @@ export function renderQuantities(text: string, units: UnitPreset): string {
     const x = raw.trim() === "" ? NaN : Number(raw);
     if (!Number.isFinite(x)) return whole;
     const limit = apart?.startsWith(LIMIT_MARK) ?? false;
-    const against = apart === undefined ? [] : apart.slice(limit ? LIMIT_MARK.length : 0).split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
+    const zero = apart?.startsWith(ZERO_MARK) ?? false;
+    const list = apart === undefined ? undefined : apart.slice(limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
+    const against = list === undefined || (zero && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
     if (!against.every(Number.isFinite)) return whole;
     try {
+      if (zero) return fmtQuantityAboveZero(units, q, x, against);
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {
       if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written

@@ -164,7 +164,10 @@ export function searchDuty(
     let npshr: number | null = null;
     const n0 = evalPacked(idx.npshr, e, qOrig);
     if (n0 !== null) npshr = method === 2 ? n0 * ratio * ratio : n0;
-    const npshMargin = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
+    // An NPSHr so small that NPSHa / NPSHr is no finite number (5e-324 m) is no requirement to judge against: no margin, as
+    // without NPSHr (it threw the whole search); at NPSHa 0 the ratio is 0, and the pump is left out as every other.
+    const ratioAtDuty = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
+    const npshMargin = ratioAtDuty !== null && Number.isFinite(ratioAtDuty) ? ratioAtDuty : null;
     if (npshMargin !== null && npshMargin < 1) { rejectedByNpsh++; continue; } // cavitation: cannot meet the duty
     fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty);
     fEff.push(eff); fBep.push(bepRatio); fNpshr.push(npshr); fMargin.push(npshMargin);

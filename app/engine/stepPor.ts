@@ -10,8 +10,9 @@
  * maker does not allow continuous running there. On a drive the figure scales with the step's speed as the BEP flow does
  * (Q ∝ N, affinity laws: common practice, from memory — the maker's data may say otherwise); below it by 1 part in 10⁹ at
  * least (a flow computed a rounding error under the figure is at it). It needs no BEP.
- * Notes, never failures: hours off the BEP wear a pump (recirculation, heating, vibration, bearing and seal life), they
- * do not stop it meeting the step; the candidate's verdict judges its duty against the maker's figure.
+ * Notes, never failures (and at a step of 0 h, information only): hours off the BEP wear a pump (recirculation, heating,
+ * vibration, bearing and seal life), they do not stop it meeting the step; the candidate's verdict judges its duty against
+ * the maker's figure.
  * The BEP flow at a speed ratio n follows the affinity laws: Q_BEP(n) = Q_BEP × n (Q ∝ N), so a drive that slows the pump
  * on a friction-only system keeps it near its BEP while a throttled fixed-speed pump moves left of it.
  * Pumps in parallel: each running pump takes its share Q/k of the step's flow Q, and the ratio is one pump's (the curve of
@@ -70,13 +71,14 @@ export const STEP_BELOW_MAKER_MIN_FLOW = "step-below-maker-min-flow";
 
 /**
  * The note at a step below the maker's minimum continuous flow, else at a step that runs outside the POR, or null: inside
- * it (70–120 % inclusive, as the design point's `inPor`), 0 h a year, no flow, or no BEP on the curve (and no maker's figure
- * above the step's flow).
+ * it (70–120 % inclusive, as the design point's `inPor`), no flow, or no BEP on the curve (and no maker's figure above the
+ * step's flow). A step of 0 h a year gets its note too, which the cycle marks as information only (cycleTotals.ts
+ * `markNeverRun`), as every other note at such a step (it gave none: two rules for one step).
  * @param input see {@link StepPorInput} (SI: m³/s, h; ratios dimensionless)
  */
 export function stepPorWarning(input: StepPorInput): StepPorWarning | EngineWarning | null {
   const { curve, flow, speed, hours, units } = input;
-  if (!(hours > 0) || !(flow > 0) || !(speed > 0)) return null;
+  if (!(hours >= 0) || !(flow > 0) || !(speed > 0)) return null;
   // One pump's flow and BEP flow at this speed: in parallel the curve's are the pumps' together (k × one's).
   const per = input.arrangement === "parallel" ? units : 1;
   const share = flow / per;

@@ -2,16 +2,16 @@ import * as v from "valibot";
 import type { Route } from "./+types/api.v1.systems.$id.preview";
 import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
-import { systemWorkbench } from "~/lib/projects";
-import { SystemInputEntrySchema } from "~/lib/projects/hydraulics";
+import { systemPreviewView } from "~/lib/projects";
 import { badRequest, methodNotAllowed, notFound, notJsonBody, refuseMethod } from "~/lib/shared/problem.server";
 import { IdField } from "~/lib/shared/forms.server";
-import { workbenchApiView, workbenchView } from "~/lib/projects/workbench-view";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
 // unsaved inputs (the editor's live chart). Nothing is stored. SI units throughout. The input is one entered now, so it
-// follows the editor's rules (`SystemInputEntrySchema`: a static head at high level below the low one is a 400 naming both).
+// follows the editor's rules (`SystemInputEntrySchema`: a static head at high level below the low one is a 400 naming both)
+// and its catalogue (a table and size the catalogue lists, on the table's bore, or one a run of this system is stored
+// with: preview-input.ts). Each refusal names its field (`pointer`, RFC 6901; `field`, the dot path); at most 25 listed.
 export async function action({ request, params }: Route.ActionArgs) {
   if (request.method !== "POST") return methodNotAllowed("POST"); // an action runs on any method but GET: PUT/PATCH/DELETE are not ours
   const c = await requireApi(request, "project.read");
@@ -25,15 +25,13 @@ export async function action({ request, params }: Route.ActionArgs) {
   } catch {
     return badRequest("The body must be JSON: { input: {…} }.");
   }
-  const parsed = v.safeParse(v.object({ input: SystemInputEntrySchema }), body);
-  if (!parsed.success) {
-    return badRequest("The system inputs are not valid.", {
-      errors: parsed.issues.map((i) => ({ field: (i.path ?? []).map((p) => String(p.key)).join("."), message: renderUnits(i.message, c.units) })),
-    });
-  }
   try {
-    const bench = await systemWorkbench(viewerOfApi(c), id.output, parsed.output.input);
-    return Response.json(renderDeep(workbenchApiView(workbenchView(bench)), c.units)); // text in the caller's units (SI for tokens)
+    const out = await systemPreviewView(viewerOfApi(c), id.output, body);
+    if (!out.ok) {
+      const more = out.count > out.errors.length ? `: ${out.count} problems, the first ${out.errors.length} listed` : "";
+      return badRequest(`The system inputs are not valid${more}.`, { errors: out.errors.map((e) => ({ ...e, message: renderUnits(e.message, c.units) })) });
+    }
+    return Response.json(renderDeep(out.view, c.units)); // text in the caller's units (SI for tokens)
   } catch (e) {
     if ((e as { init?: { status?: number } })?.init?.status === 404) return notFound();
     throw e;

@@ -2,6 +2,7 @@ import * as v from "valibot";
 import { Form, useLoaderData } from "react-router";
 import type { Route } from "./+types/workspace";
 import { changeRole, invite, listInvitations, listMembers, removeMember, renameWorkspace, revokeInvitation, setWorkspaceCurrency, workspaceCurrency } from "~/lib/workspaces";
+import { pendingOfferCount } from "~/lib/projects";
 import { requireMember, setCurrentWorkspace, staleWorkspacePage } from "~/lib/auth/guards.server";
 import { can, ROLE_LABELS, ROLES, type Permission } from "~/lib/auth/permissions";
 import { Email, IdField, invalid, Name, PageWorkspaceId, readForm } from "~/lib/shared/forms.server";
@@ -18,9 +19,16 @@ export const meta: Route.MetaFunction = () => [{ title: "Workspace · Dutymark" 
 export async function loader({ request }: Route.LoaderArgs) {
   const m = await requireMember(request, "workspace.read");
   const admin = can(m.role, "members.manage");
-  const [members, invites, currency] = await Promise.all([listMembers(m.workspace.id), admin ? listInvitations(m.workspace.id) : Promise.resolve([]), workspaceCurrency(m.workspace.id)]);
+  const decides = can(m.role, "shares.decide");
+  const [members, invites, currency, offersWaiting] = await Promise.all([
+    listMembers(m.workspace.id),
+    admin ? listInvitations(m.workspace.id) : Promise.resolve([]),
+    workspaceCurrency(m.workspace.id),
+    decides ? pendingOfferCount(m.workspace.id) : Promise.resolve(null),
+  ]);
   return {
     currency,
+    offersWaiting,
     me: m.user.id,
     role: m.role,
     workspace: m.workspace,
@@ -239,6 +247,15 @@ export default function Workspace() {
               ))}
             </ul>
           ) : null}
+        </section>
+      ) : null}
+      {d.offersWaiting !== null ? (
+        <section className="panel">
+          <h2 className="text-lg font-semibold">Projects offered to this workspace</h2>
+          <p className="mt-1 text-sm text-slate-700">
+            Other workspaces can offer you their projects for field checks; nothing of a project is open here until an admin accepts it.{" "}
+            <a href="/workspace/shares">{d.offersWaiting === 0 ? "See the offers (none waiting for an answer)" : `${d.offersWaiting === 1 ? "1 offer waits" : `${d.offersWaiting} offers wait`} for your answer`}</a>
+          </p>
         </section>
       ) : null}
       <p>

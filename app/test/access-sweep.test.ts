@@ -16,6 +16,7 @@ import * as fieldPhotoRoute from "~/routes/field.checks.$id.photos.$photoId";
 import * as fieldCsvRoute from "~/routes/field.selections.$id.export-csv";
 import * as fieldSyncRoute from "~/routes/field.selections.$id.checks";
 import * as shareRoute from "~/routes/projects.$id.share";
+import * as offersRoute from "~/routes/workspace.shares";
 import * as fieldHomeRoute from "~/routes/field";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
@@ -28,6 +29,8 @@ type Ctx = {
   bSessionId: string;
   /** B's field-check objects: a project (shared with a third workspace), its selection, a check with a photo. */
   bField: { projectId: number; selectionId: number; checkId: number; photoId: number; shareId: number; aSlug: string };
+  /** An offer to B (a third workspace's project, pending): only B's admins may answer it. */
+  bOfferId: number;
 };
 const checksOf = async (selectionId: number) => (await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId))).length;
 type Probe = {
@@ -135,6 +138,14 @@ export const SWEEP: Probe[] = [
     opts: (c) => ({ path: `/projects/${c.bField.projectId}/share`, cookie: c.a.cookie, params: { id: String(c.bField.projectId) }, form: { intent: "unshare", shareId: String(c.bField.shareId) } }),
     unchanged: async (c) => (await db().select().from(projectShares).where(eq(projectShares.id, c.bField.shareId))).length === 1,
   },
+  ...(["accept", "decline"] as const).map(
+    (intent): Probe => ({
+      name: `POST /workspace/shares intent=${intent} (an offer to B)`,
+      fn: () => offersRoute.action as never,
+      opts: (c) => ({ path: "/workspace/shares", cookie: c.a.cookie, form: { intent, shareId: String(c.bOfferId), pageWorkspaceId: String(c.a.workspaceId) } }),
+      unchanged: async (c) => (await db().select().from(projectShares).where(eq(projectShares.id, c.bOfferId)))[0]?.state === "pending",
+    }),
+  ),
 ];
 
 let ctx: Ctx;
@@ -148,7 +159,7 @@ beforeAll(async () => {
   const [bs] = await db().select().from(sessions).where(eq(sessions.userId, b.userId));
   const sel = await storeSelection(b.workspaceId, b.userId, undefined, "B field");
   const third = await makeWorkspace();
-  const [{ id: shareId }] = await db().insert(projectShares).values({ projectId: sel.projectId, workspaceId: third.id, createdBy: b.userId }).$returningId();
+  const [{ id: shareId }] = await db().insert(projectShares).values({ projectId: sel.projectId, workspaceId: third.id, createdBy: b.userId, state: "accepted" }).$returningId();
   const [{ id: checkId }] = await db()
     .insert(fieldChecks)
     .values({ selectionId: sel.selectionId, chainId: null, version: 1, workspaceId: b.workspaceId, createdBy: b.userId, readingsJson: "{}", resultJson: "{}", verdict: "pass", grade: "2B", notes: "" })
@@ -157,7 +168,9 @@ beforeAll(async () => {
   const jpeg = Buffer.from([0xff, 0xd8, 0xff, 0xe0]);
   const [{ id: photoId }] = await db().insert(fieldCheckPhotos).values({ fieldCheckId: checkId, filename: "b.jpg", contentType: "image/jpeg", sizeBytes: jpeg.length, sha256: "0".repeat(64), content: jpeg }).$returningId();
   const [aw] = await db().select().from(workspaces).where(eq(workspaces.id, a.workspaceId));
-  ctx = { a, b, bMembershipId: bm.id, bInvitationId: bi.id, bTokenId, bSessionId: bs.id, bField: { projectId: sel.projectId, selectionId: sel.selectionId, checkId, photoId, shareId, aSlug: aw.slug } };
+  const offered = await storeSelection(third.id, b.userId, undefined, "Offered to B");
+  const [{ id: bOfferId }] = await db().insert(projectShares).values({ projectId: offered.projectId, workspaceId: b.workspaceId, createdBy: b.userId }).$returningId();
+  ctx = { a, b, bMembershipId: bm.id, bInvitationId: bi.id, bTokenId, bSessionId: bs.id, bField: { projectId: sel.projectId, selectionId: sel.selectionId, checkId, photoId, shareId, aSlug: aw.slug }, bOfferId };
 });
 afterAll(() => closeDb());
 
@@ -176,12 +189,14 @@ describe("access sweep: workspace A cannot reach workspace B", () => {
     const acct = await call(accountRoute.loader as never, { path: "/account", cookie: ctx.a.cookie });
     const [bws] = await db().select().from(workspaces).where(eq(workspaces.id, ctx.b.workspaceId));
     const field = await call(fieldHomeRoute.loader as never, { path: "/field", cookie: ctx.a.cookie });
-    for (const r of [ws, acct, field]) {
+    const offers = await call(offersRoute.loader as never, { path: "/workspace/shares", cookie: ctx.a.cookie });
+    for (const r of [ws, acct, field, offers]) {
       expect(r.status).toBe(200);
       const text = JSON.stringify(r.body);
       expect(text).not.toContain(ctx.b.email);
       expect(text).not.toContain(bws.name);
       expect(text).not.toContain("B field");
+      expect(text).not.toContain("Offered to B");
     }
   });
 });

@@ -5,9 +5,6 @@
 // The crossing is found here from the system curve and the control relation H = H_set · (0.5 + 0.5 · Q/Q_design)
 // (proportional pressure, common practice: app/engine/dutyCycle.ts), not from the code under test. Invented pump.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { closeDb } from "@db/client.server";
 import { prepareSystem, systemHeadFunction } from "~/engine";
 import { createLibrary, listModels, type Viewer } from "~/lib/libraries";
@@ -16,6 +13,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, systemSpec, type SystemInput } 
 import { DEFAULT_ENERGY_SETTINGS } from "~/lib/projects/energy";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import SelectionReport, * as selectionPage from "~/routes/selections.$id";
 import * as selectionCsv from "~/routes/selections.$id.export-csv";
@@ -50,11 +48,7 @@ let m: TestMember;
 let v: Viewer;
 const pages: Record<"below" | "above", { system: string; report: string; print: string; csv: string[][] }> = {} as never;
 
-function render(path: string, Component: unknown, data: unknown): string {
-  const Stub = createRoutesStub([{ path, Component: Component as never, loader: () => data }]);
-  const url = path.replace(":id", "1");
-  return renderToString(createElement(Stub, { initialEntries: [url], hydrationData: { loaderData: { "0": data } } } as never));
-}
+const render = (path: string, Component: unknown, data: unknown) => renderPage(path, Component, path.replace(":id", "1"), data);
 const text = (html: string) => html.replace(/<!--.*?-->/g, "").replace(/<[^>]*>/g, " ").replace(/&amp;/g, "&").replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/\s+/g, " ");
 
 beforeAll(async () => {

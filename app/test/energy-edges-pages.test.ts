@@ -4,9 +4,6 @@
 // escalation of 100 %/year over 50 years is called implausible, with its rule and numbers, wherever the life-cycle cost
 // is shown. Invented pump (the low-head one of duty-cycle-pages.test.ts).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import Papa from "papaparse";
 import { closeDb } from "@db/client.server";
 import { prepareSystem, systemHeadFunction } from "~/engine";
@@ -16,6 +13,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, systemSpec, type SystemInput } 
 import { DEFAULT_ENERGY_SETTINGS } from "~/lib/projects/energy";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { call, makeMember } from "./harness";
+import { renderPage } from "./render-page";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import SelectionReport, * as selectionPage from "~/routes/selections.$id";
 import * as selectionCsv from "~/routes/selections.$id.export-csv";
@@ -35,10 +33,7 @@ const system = systemHeadFunction(prepareSystem(systemSpec(input)));
 const designFlow = input.duty!.flow;
 
 const text = (html: string) => html.replace(/<!--.*?-->/g, "").replace(/<[^>]*>/g, " ").replace(/&amp;/g, "&").replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/\s+/g, " ");
-function render(path: string, Component: unknown, data: unknown): string {
-  const Stub = createRoutesStub([{ path, Component: Component as never, loader: () => data }]);
-  return renderToString(createElement(Stub, { initialEntries: [path.replace(":id", "1")], hydrationData: { loaderData: { "0": data } } } as never));
-}
+const render = (path: string, Component: unknown, data: unknown) => renderPage(path, Component, path.replace(":id", "1"), data);
 let page: { system: string; report: string; print: string; csv: string[][] };
 
 beforeAll(async () => {

@@ -38,4 +38,18 @@ describe("blank tariff escalation and discount rate", () => {
     expect((await save({ "energy.escalation": "2.5", "energy.discount": "" })).body).toMatchObject({ saved: true });
     expect(await stored()).toMatchObject({ escalation: 0.025, discountRate: 0 });
   });
+  test("Years blank: 15, the default the hint states, not the 20 stored (helper \"formedge\"); typed: as typed", async () => {
+    expect((await save({ "energy.years": "20" })).body).toMatchObject({ saved: true });
+    expect((await stored()).years).toBe(20);
+    expect((await save({ "energy.years": "" })).body).toMatchObject({ saved: true });
+    expect((await stored()).years).toBe(15);
+  });
+  test("a rate outside its range is refused at its field with the range, nothing saved (helper \"formedge\")", async () => {
+    const r = await save({ "energy.escalation": "100.5", "energy.discount": "-1" });
+    expect((r.body as { errors: Record<string, string> }).errors).toEqual({
+      "energy.escalation": "Tariff escalation is too high: it takes from −50 % to 100 % a year; check the value.",
+      "energy.discount": "Discount rate is too low: it takes from 0 % to 100 % a year; check the value.",
+    });
+    expect((await stored()).years).toBe(15); // the save before
+  });
 });

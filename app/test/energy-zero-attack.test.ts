@@ -6,9 +6,6 @@
 // nothing stored on a refusal. Check values: a year's hours (366 × 24 = 8784 h, a leap year), 0 % flow = no demand, pump
 // stopped, 0 kWh (dutyCycle.ts `no-demand`); LCC with no energy = the purchase price (lifeCycleCost.ts, common practice).
 // Invented pump (the energy fixture's curve shape).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -21,6 +18,7 @@ import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import { SI_UNITS } from "~/lib/shared/units";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { selectionPages, textOf } from "./selection-pages";
 import { send, wrongAnswer } from "./route-table";
 
@@ -97,8 +95,7 @@ describe("a profile of only 0 % steps: every hour at zero demand", () => {
       expect(JSON.stringify(e)).not.toMatch(/null,"energyKWh":NaN|NaN|Infinity/);
       const page = await call(systemPage.loader as never, { path: `/systems/${sys[k]}`, cookie: m.cookie, params: { id: String(sys[k]) } });
       expect(page.status).toBe(200);
-      const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPage as never, loader: () => page.body }]);
-      const text = textOf(renderToString(createElement(Stub, { initialEntries: [`/systems/${sys[k]}`], hydrationData: { loaderData: { "0": page.body } } } as never)));
+      const text = textOf(renderPage("/systems/:id", SystemPage, `/systems/${sys[k]}`, page.body));
       expect(text).toMatch(/stopped, no demand/);
       expect(text.match(NOT_A_NUMBER)?.[0] ?? null, text.slice(Math.max(0, text.search(NOT_A_NUMBER) - 200), text.search(NOT_A_NUMBER) + 100)).toBeNull();
       const sel = await selectCandidate(v, bench.candidates[0].id, `Zero ${k}`, "");

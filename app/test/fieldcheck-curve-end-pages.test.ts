@@ -3,9 +3,6 @@
 // does not reach the published curve, with the measured flow and the curve's end; judged on the published part where it
 // does. Real route modules, guards, mail outbox and MariaDB. Check values: ISO 9906:2012 grade 2B as in TOLERANCE_GRADES,
 // from memory (flow ±8 %); the fixture curve is invented (H = 40 − 1000·Q to 0.03 m³/s = 108 m³/h at 10 m).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { desc, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -19,6 +16,7 @@ import * as selectionPage from "~/routes/selections.$id";
 import * as checkPage from "~/routes/field.checks.$id";
 import * as csvRoute from "~/routes/field.selections.$id.export-csv";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -42,12 +40,7 @@ beforeAll(async () => {
   }
 });
 
-async function pageHtml(id: number) {
-  const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
-}
+const pageHtml = async (id: number) => (await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${id}`, { id: String(id) })).html;
 
 // 118.8 m³/h: the arm reaches back to 110 m³/h, past the end; 113.4 m³/h: to 105 m³/h, and the curve's 10 m is at its end (+5 %).
 const BEYOND = "No tolerance verdict: the measured flow 119 m³/h lies beyond the curve's end at 108 m³/h, and the curve states nothing there; grade 2B's flow arm (+8 %) reaches back only to 110 m³/h, short of it";

@@ -3,9 +3,6 @@
 // rendered, none left raw). Real route module, guards and MariaDB (app/test/harness.ts). Check values: ISO 9906:2012 grade 2B
 // from memory (head ±5 %, TOLERANCE_GRADES); the fixture curve is invented (H = 40 − 1000·Q: 28 m at 12 L/s); the gauges'
 // head uncertainty √(a² + a²)/(ρ·g) = 0.5 m (common practice, quadrature).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { fluidAt, G0 } from "~/engine";
@@ -13,7 +10,8 @@ import { viewerOfUser } from "~/lib/projects/test-kit";
 import { parseCheckFields } from "~/lib/fieldchecks";
 import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import * as checkPage from "~/routes/field.checks.$id";
-import { call, makeMember, type TestMember } from "./harness";
+import { makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -34,12 +32,7 @@ beforeAll(async () => {
 });
 
 test("the verdict's sentence on the page: missed as read, and the point within the uncertainty that meets 2B, in units", async () => {
-  const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
-  const html = renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never))
-    .replace(/<!-- -->/g, "")
-    .replace(/&#x27;/g, "'");
+  const { html } = await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${id}`, { id: String(id) });
   expect(html).toContain('data-verdict="marginal"');
   const said = html.match(/<p class="text-sm">Delivered point[^<]*<\/p>/)?.[0] ?? "(no verdict sentence)";
   // Was: "Delivered point is outside every grade checked (head 6.1 % from curve)." alone beside "at the tolerance limit".

@@ -4,9 +4,6 @@
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: ISO 9906:2012 grade 1B from memory (power
 // +4 %, efficiency −3 %, TOLERANCE_GRADES); the fixture's curve is invented (H = 40 − 1000·Q, 70 % at Q = 0.015 m³/s,
 // app/test/fieldcheck-fixture.ts); curve shaft power there ρ·g₀·Q·H/η (hand formula), water at 20 °C through the engine.
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -21,6 +18,7 @@ import * as selectionPage from "~/routes/selections.$id";
 import * as checkPage from "~/routes/field.checks.$id";
 import * as csvRoute from "~/routes/field.selections.$id.export-csv";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -53,14 +51,7 @@ beforeAll(async () => {
   await db().update(fieldChecks).set({ resultJson: JSON.stringify(oldShape), verdict: "pass" }).where(eq(fieldChecks.id, ids.old));
 });
 
-async function pageHtml(id: number) {
-  const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never))
-    .replace(/<!-- -->/g, "")
-    .replace(/&#x27;/g, "'");
-}
+const pageHtml = async (id: number) => (await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${id}`, { id: String(id) })).html;
 
 describe("the check's page states the grade's power and efficiency limits", () => {
   test("power +12 % on grade 1B: outside tolerance, and each limit with its rule and numbers", async () => {

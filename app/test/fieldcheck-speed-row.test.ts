@@ -4,9 +4,6 @@
 // speed (1449.7 rpm) is 49.99 % …". rpm reads the same in SI and US units. Real route module, guards and MariaDB
 // (app/test/harness.ts). Check values: the 50–120 % range (ISO 9906, from memory; SPEED_RANGE); the fixture curve is an
 // invented straight line at 2900 rpm (app/test/fieldcheck-fixture.ts).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { fluidAt } from "~/engine";
@@ -14,7 +11,8 @@ import { viewerOfUser } from "~/lib/projects/test-kit";
 import { parseCheckFields } from "~/lib/fieldchecks";
 import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import * as checkPage from "~/routes/field.checks.$id";
-import { call, makeMember, type TestMember } from "./harness";
+import { makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -37,11 +35,7 @@ beforeAll(async () => {
 
 /** `stored`: changes the loaded record first (a check stored before a change of its texts). */
 async function speedRows(id: number, stored?: (body: { result: { chart: { measuredLabel: string } } }) => void): Promise<{ rows: string[]; html: string }> {
-  const r = await call(checkPage.loader as never, { path: `/field/checks/${id}`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  stored?.(r.body as never);
-  const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => r.body }]);
-  const html = renderToString(createElement(Stub, { initialEntries: [`/field/checks/${id}`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
+  const { html } = await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${id}`, { id: String(id) }, stored);
   return { rows: [...html.matchAll(/<dt class="text-slate-600">Speed<\/dt><dd>(.*?)<\/dd>/g)].map((x) => x[1]), html };
 }
 

@@ -100,6 +100,16 @@ test("a node whose client port is taken before it binds starts again on other po
   expect(Number(sqlAt(n1.socket, "SELECT @@port").trim())).toBe(n1.port);
 }, 120_000);
 
+/** A two-node start expected to fail: the first line of its error (a cluster that started all the same is kept to be stopped). */
+async function failedStart(root: string, choosePort: PortChooser): Promise<string> {
+  const failure = await startGaleraCluster(2, { root, choosePort }).then(
+    (c: Cluster) => (clusters.push(c), null),
+    (e: Error) => e,
+  );
+  expect(failure, "the start should have failed").toBeInstanceOf(Error);
+  return failure!.message.split("\n")[0];
+}
+
 test("a node whose client port is taken on every try gives up after three, naming itself and each set of ports", async () => {
   const root = newRoot();
   const occupied: number[] = [];
@@ -111,13 +121,8 @@ test("a node whose client port is taken on every try gives up after three, namin
     }
     return port;
   };
-  const failure = await startGaleraCluster(2, { root, choosePort }).then(
-    (c: Cluster) => (clusters.push(c), null),
-    (e: Error) => e,
-  );
-  expect(failure, "the start should have failed").toBeInstanceOf(Error);
+  const message = await failedStart(root, choosePort);
   expect(occupied.length).toBe(3); // the first try and two retries, no more
-  const message = failure!.message.split("\n")[0];
   expect(message).toMatch(/^node1 did not join the cluster on any of its 3 sets of ports/);
   for (const port of occupied) expect(message).toContain(`client ${port},`);
   expect(await stillRunning(mariadbdUnder(root).map((p) => p.pid))).toEqual([]);
@@ -138,12 +143,7 @@ test("a node that cannot start fails the start, naming it and its ports, and the
     }
     return port;
   };
-  const failure = await startGaleraCluster(2, { root, choosePort }).then(
-    (c: Cluster) => (clusters.push(c), null),
-    (e: Error) => e,
-  );
-  expect(failure, "the start should have failed").toBeInstanceOf(Error);
-  const message = failure!.message.split("\n")[0];
+  const message = await failedStart(root, choosePort);
   expect(message).toMatch(/^node2 did not join the cluster/);
   expect(occupied.length).toBeGreaterThanOrEqual(2);
   for (const port of occupied) expect(message).toContain(`client ${port},`);

@@ -1,11 +1,9 @@
 // The library page's markup, rendered on the server from loader data (no database): each curve's
 // label is written once in its point table, and the table keeps its accessible name.
 import { describe, expect, it } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import LibraryPage, { type loader } from "~/routes/libraries.$id";
 import { SI_UNITS } from "~/lib/shared/units";
+import { renderPage } from "./render-page";
 
 // Two invented points of one curve (SI as stored: m³/s, m, fraction, W, m).
 const points = [
@@ -34,8 +32,7 @@ const data = {
 } satisfies Awaited<ReturnType<typeof loader>>; // the loader's own shape: a field it adds must be added here
 
 function render(): string {
-  const Stub = createRoutesStub([{ path: "/libraries/:id", Component: LibraryPage as never, loader: () => data }]);
-  return renderToString(createElement(Stub, { initialEntries: ["/libraries/1"], hydrationData: { loaderData: { "0": data } } } as never));
+  return renderPage("/libraries/:id", LibraryPage, "/libraries/1", data);
 }
 const count = (s: string, needle: string) => s.split(needle).length - 1;
 const text = (s: string) => s.replace(/<[^>]*>/g, "").replace(/&amp;/g, "&");

@@ -4,7 +4,11 @@
 import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
 import { createProject, createSystem } from "~/lib/projects/projects.server";
 import { defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
-import { importCsvText, M3H } from "~/lib/projects/test-kit";
+import { importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
+import { createApiToken } from "~/lib/auth/api-tokens.server";
+import * as apiSearch from "~/routes/api.v1.systems.$id.search";
+import { expect } from "vitest";
+import { call, makeMember, type TestMember } from "./harness";
 
 const FLOWS = [0, 30, 60, 90, 120, 150, 180, 210, 240]; // m³/h
 const head = (q: number) => 45 - 6 * (q / 100) ** 2; // m
@@ -32,4 +36,21 @@ export function npshProbeSystem(v: Viewer, projectId: number, suctionStaticHead:
   if (fluid) input.fluid = fluid;
   input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
   return createSystem(v, projectId, `Suction ${suctionStaticHead} m`, input);
+}
+
+/** An admin of a new workspace, its probes' project (`npshr: false`: the curves without NPSHr) and a read token. */
+export type NpshProbeSide = { m: TestMember; v: Viewer; projectId: number; token: string };
+export async function npshProbeSide(npshr: boolean): Promise<NpshProbeSide> {
+  const m = await makeMember("admin");
+  const v = await viewerOfUser(m.userId);
+  const projectId = await npshProbeProject(v, { npshr });
+  const token = (await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "r", scope: "read" })).token;
+  return { m, v, projectId, token };
+}
+
+/** The search API's answer for system `id`, read with the side's token (200 expected). */
+export async function probeSearchApi<T>(s: NpshProbeSide, id: number): Promise<T> {
+  const r = await call(apiSearch.loader as never, { path: `/api/v1/systems/${id}/search`, params: { id: String(id) }, headers: { authorization: `Bearer ${s.token}` } });
+  expect(r.status).toBe(200);
+  return r.body as T;
 }

@@ -10,7 +10,7 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { candidates, libraries, tracePictures, uploads } from "@db/schema";
+import { candidates, libraries, projectShares, tracePictures, uploads } from "@db/schema";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { createLibrary } from "~/lib/libraries";
 import { importCsvText } from "~/lib/projects/test-kit";
@@ -53,7 +53,7 @@ const ANON: Who = { who: "anonymous", headers: {} };
 const strangerAs = (api: boolean): Who[] => (api ? [{ who: "stranger's token", headers: { authorization: `Bearer ${strangerToken}` } }] : [{ who: "stranger", cookie: stranger.cookie, headers: {} }]);
 const ownerAs = (api: boolean): Who => (api ? { who: "owner's token", headers: { authorization: `Bearer ${owner.token}` } } : { who: "owner", cookie: owner.m.cookie, headers: {} });
 
-const OWNER_DATA = /Walk (project|system|selection|doomed|\d{6,})/;
+const OWNER_DATA = /Walk (project|system|selection|doomed|offer|\d{6,})/;
 /** An answer that must refuse: a 4xx (anonymous may be sent to /signin), nothing of the owner's. */
 const wrongRefusal = (a: Answer, api: boolean, anonymous: boolean) => wrongAnswer(a, { api, anonymous, refusal: true, secret: OWNER_DATA });
 
@@ -160,6 +160,8 @@ const FOREIGN_IN_BODY: { route: string; name: string; method: "GET" | "POST"; as
   { route: "libraries/:id/trace", name: "delete the owner's picture", method: "POST", ask: (x) => ({ form: { intent: "delete", pictureId: x } }) },
   { route: "field/selections/:id", name: "amend the owner's check (form page)", method: "GET", ask: (x) => ({ query: `amend=${x}` }) },
   { route: "api/v1/libraries/:id/curves", name: "the owner's revision", method: "GET", ask: (x) => ({ query: `revision=${x}` }) },
+  { route: "workspace/shares", name: "accept an offer to the owner's workspace", method: "POST", ask: (x) => ({ form: { intent: "accept", shareId: x, pageWorkspaceId: String(own.m.workspaceId) } }) },
+  { route: "workspace/shares", name: "decline an offer to the owner's workspace", method: "POST", ask: (x) => ({ form: { intent: "decline", shareId: x, pageWorkspaceId: String(own.m.workspaceId) } }) },
 ];
 
 test("the owner's ids in a body field or query parameter of a request on the stranger's own record: answered as an id no row has, nothing of the owner's read or changed", async () => {
@@ -169,12 +171,13 @@ test("the owner's ids in a body field or query parameter of a request on the str
     "libraries/:id/trace": String(owner.picture),
     "field/selections/:id": String(owner.check),
     "api/v1/libraries/:id/curves": String(ownerRev.id),
+    "workspace/shares": String(owner.offer),
   };
   const fails: string[] = [];
   for (const c of FOREIGN_IN_BODY) {
     const r = ROUTES.find((x) => x.path === c.route)!;
     const api = isApi(r.path);
-    const params = GOOD_PARAMS[r.path](own);
+    const params = GOOD_PARAMS[r.path]?.(own) ?? {}; // a route without path parameters (/workspace/shares): none
     const as = strangerAs(api)[0];
     const go = async (id: string) => {
       const { query, form } = c.ask(id);
@@ -192,6 +195,8 @@ test("the owner's ids in a body field or query parameter of a request on the str
   const [cand] = await db().select().from(candidates).where(eq(candidates.id, owner.candidate));
   const pics = await db().select().from(tracePictures).where(eq(tracePictures.id, owner.picture));
   if (!cand || pics.length !== 1) fails.push(`the owner's candidate (${Boolean(cand)}) or picture (${pics.length}) is gone`);
+  const [offer] = await db().select({ state: projectShares.state }).from(projectShares).where(eq(projectShares.id, owner.offer));
+  if (offer?.state !== "pending") fails.push(`the offer to the owner's workspace is ${offer?.state ?? "gone"}, not pending`);
   if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
   expect(fails).toEqual([]);
 }, 60_000);

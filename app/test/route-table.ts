@@ -5,7 +5,7 @@
 import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { db } from "@db/client.server";
-import { fieldCheckPhotos, libraries } from "@db/schema";
+import { fieldCheckPhotos, libraries, projectShares } from "@db/schema";
 import routeConfig from "~/routes";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { invite } from "~/lib/workspaces";
@@ -18,8 +18,8 @@ import { parseCheckFields } from "~/lib/fieldchecks";
 import { storePicture } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
 import { middleware } from "~/root";
-import { fieldsForHead } from "./fieldcheck-fixture";
-import { BASE, type TestMember } from "./harness";
+import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
+import { BASE, makeWorkspace, type TestMember } from "./harness";
 
 type Entry = { id?: string; path?: string; file: string; index?: boolean; children?: Entry[] };
 export type Mod = { loader?: unknown; action?: unknown; default?: unknown };
@@ -37,8 +37,11 @@ export const ROUTES = flatten(routeConfig as Entry[]);
 export const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]).concat(path.endsWith("*") ? ["*"] : []);
 export const isApi = (path: string) => path.startsWith("api/");
 
-/** One record of each kind a path parameter names, all in `m`'s workspace, and `m`'s write token. */
-export type WalkRecords = { m: TestMember; token: string; lib: number; upload: number; picture: number; project: number; system: number; candidate: number; model: number; selection: number; check: number; photo: number; invite: string };
+/**
+ * One record of each kind a path parameter names, all in `m`'s workspace, and `m`'s write token; `offer`: a share of
+ * another workspace's project offered to `m`'s workspace (pending), which only its admins may answer (/workspace/shares).
+ */
+export type WalkRecords = { m: TestMember; token: string; lib: number; upload: number; picture: number; project: number; system: number; candidate: number; model: number; selection: number; check: number; photo: number; invite: string; offer: number };
 
 /** Routes whose one path parameter is `:id`, by the record it names. */
 export const ID_ROUTES: [record: "lib" | "project" | "system" | "selection" | "check", paths: string[]][] = [
@@ -74,7 +77,7 @@ export async function load(file: string): Promise<Mod> {
   return loader();
 }
 
-/** A library with an imported upload and a traced picture, a project, system, candidate, selection, field check with a photo, an invitation and a write token, all `m`'s workspace's. */
+/** A library with an imported upload and a traced picture, a project, system, candidate, selection, field check with a photo, an invitation and a write token, all `m`'s workspace's; and an offer to it. */
 export async function walkRecords(m: TestMember): Promise<WalkRecords> {
   const viewer = { userId: m.userId, workspace: { id: m.workspaceId, name: "W", slug: "w", plan: "free" as const }, role: "admin" as const };
   const lib = await createLibrary(viewer, { name: `Walk ${Date.now()}`, description: "" });
@@ -94,7 +97,9 @@ export async function walkRecords(m: TestMember): Promise<WalkRecords> {
   const inv = await invite({ workspaceId: m.workspaceId, workspaceName: "W", inviterId: m.userId, inviterName: "W", email: `walk-${Date.now()}@example.test`, role: "viewer" });
   const { token } = await createApiToken({ userId: m.userId, workspaceId: m.workspaceId, name: "walk", scope: "write" });
   const picture = await storePicture(viewer, lib, new File([chartPdf()], "walk.pdf", { type: "application/pdf" }));
-  return { m, token, lib, upload, picture, project, system, candidate: added.id, model: sets[0].modelId, selection, check: rec.id, photo: photo.id, invite: inv };
+  const giver = await storeSelection((await makeWorkspace()).id, m.userId, undefined, "Walk offer");
+  const [{ id: offer }] = await db().insert(projectShares).values({ projectId: giver.projectId, workspaceId: m.workspaceId, createdBy: m.userId }).$returningId();
+  return { m, token, lib, upload, picture, project, system, candidate: added.id, model: sets[0].modelId, selection, check: rec.id, photo: photo.id, invite: inv, offer };
 }
 
 type Mw = (args: unknown, next: () => Promise<Response>) => Promise<Response | void>;

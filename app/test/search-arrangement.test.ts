@@ -7,9 +7,6 @@
 // invented drooping pump (droop-pump.ts; text as verdict-start-surfaces.test.ts reads it: pump 1 alone holds 41.2 m, above
 // the 40 m shut-off head, and delivers 50.8 m³/h at most lift, aged pipe — common practice, from memory).
 import { readFileSync } from "node:fs";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -22,6 +19,7 @@ import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { importDroopPump } from "./droop-pump";
 
 afterAll(() => closeDb());
@@ -148,13 +146,8 @@ describe("staged starts on a search row (the drooping pump, 2 in parallel)", () 
   });
 });
 
-async function pageHtml(id: number, query: string) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${id}/search${query}`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/systems/${id}/search`], hydrationData: { loaderData: { "0": r.body } } } as never))
-    .replace(/<!-- -->/g, "").replace(/&#x27;/g, "'").replace(/&quot;/g, '"');
-}
+const pageHtml = async (id: number, query: string) =>
+  (await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${id}/search${query}`, { id: String(id) })).html;
 
 describe("the search page without JavaScript", () => {
   type Loaded = { filterNotes: string[]; filters: { arrangement: unknown }; arrangement: { rule: string | null }; results: { curveSetId: number; pick: string; verdict: { status: string } | null }[] };

@@ -8,9 +8,6 @@
 // must follow), our product rules (SEARCH_EVALUATED, SEARCH_FILL_JUDGED) and the verdict's catalogue rule (engine
 // verdict.ts: an impeller within the model's published diameters, so a model publishing one impeller has every trim
 // outside the catalogue).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -22,6 +19,7 @@ import * as searchPage from "~/routes/systems.$id.search";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import { bigLibraryCsv } from "./big-library";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -42,13 +40,8 @@ async function fixture(name: string, csv: string) {
   return { m, v, systemId };
 }
 
-async function pageHtml(m: TestMember, systemId: number, query: string) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${systemId}/search${query}`, params: { id: String(systemId) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}/search`], hydrationData: { loaderData: { "0": r.body } } } as never));
-  return html.replace(/<!-- -->/g, "").replace(/&#x27;/g, "'").replace(/&quot;/g, '"');
-}
+const pageHtml = async (m: TestMember, systemId: number, query: string) =>
+  (await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${systemId}/search${query}`, { id: String(systemId) })).html;
 const cutNote = (html: string) => /data-testid="search-catalogue-cut"[^>]*>(.*?)<\/span>/s.exec(html)?.[1] ?? null;
 
 describe("pumps outside the catalogue among the best-ranked (60 invented models, 600 curve sets)", () => {

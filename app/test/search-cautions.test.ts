@@ -5,9 +5,6 @@
 // rises above it again is unstable), the engine's own caution text (identity with evaluateCandidate). The curve is invented
 // ("Dip probe 80": a dip between shut-off and a second hump), the system the default with a static head of 39.5 m.
 // Also the row's NPSH cell where NPSHa ≤ 0 decides: no ratio, no dash for the missing range (DEVELOPERS.md "npshenergy").
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
@@ -17,7 +14,8 @@ import { searchResultView } from "~/lib/projects/search-view";
 import { importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
 import { inSI } from "~/engine/quantityText";
 import * as searchPage from "~/routes/systems.$id.search";
-import { call, makeMember, type TestMember } from "./harness";
+import { makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -45,12 +43,7 @@ function input(s: number): SystemInput {
 }
 const unstable = (ws: string[]) => ws.map(inSI).filter((w) => /unstable/.test(w));
 
-async function pageHtml(id: number) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${id}/search`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/systems/${id}/search`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
-}
+const pageHtml = async (id: number) => (await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${id}/search`, { id: String(id) })).html;
 
 describe("search row of a pump whose curve crosses the system's again, unstably, past its operating point", () => {
   test("the case: evaluateCandidate warns the crossing at 50.2 m³/h is unstable", () => {

@@ -3,15 +3,13 @@
 // equivalent water duty searched (ANSI/HI 9.6.7), or why none, and says each verdict is the liquid's. Real route module, guards and MariaDB
 // (app/test/harness.ts); the two pumps are invented (app/test/npsh-probe.ts). Check values: our product rules
 // (search.server.ts rankClass) and common practice (NPSHa below NPSHr: cavitation risk).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import type { Viewer } from "~/lib/libraries";
 import { viewerOfUser } from "~/lib/projects/test-kit";
 import * as searchPage from "~/routes/systems.$id.search";
-import { call, makeMember, type TestMember } from "./harness";
+import { makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 import { npshProbeProject, npshProbeSystem } from "./npsh-probe";
 
 afterAll(() => closeDb());
@@ -25,15 +23,7 @@ beforeAll(async () => {
   projectId = await npshProbeProject(v);
 });
 
-async function pageHtml(id: number) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${id}/search`, params: { id: String(id) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/systems/${id}/search`], hydrationData: { loaderData: { "0": r.body } } } as never))
-    .replace(/<!-- -->/g, "")
-    .replace(/&#x27;/g, "'")
-    .replace(/&quot;/g, '"');
-}
+const pageHtml = async (id: number) => (await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${id}/search`, { id: String(id) })).html;
 
 const text = (html: string, testId: string) => (new RegExp(`data-testid="${testId}[^"]*"[^>]*>(.*?)</(td|p)>`, "s").exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
 

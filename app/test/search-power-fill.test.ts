@@ -6,9 +6,6 @@
 // models). Check values: the unfiltered search (the ranking the filtered list must follow), the row's own power (each
 // shown at or under the limit), our product rules (SEARCH_EVALUATED, SEARCH_POWER_JUDGED); the limits 1.13 kW and
 // 1.10 kW were chosen from this library's powers (the best 80 run at 1.09–1.16 kW at their operating points).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
@@ -18,6 +15,7 @@ import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import * as searchPage from "~/routes/systems.$id.search";
 import { bigLibraryCsv } from "./big-library";
 import { call, makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -72,10 +70,7 @@ describe("a limit so tight the judging stops before the list fills", () => {
     expect(limited.paging.total).toBe(SEARCH_POWER_JUDGED - limited.hidden.overPower);
     expect(limited.paging.total).toBeLessThan(SEARCH_EVALUATED);
     expect(limited.paging.total).toBeGreaterThan(0);
-    const r = await call(searchPage.loader as never, { path: `/systems/${systemId}/search?maxPower=1.1&beyond=1`, params: { id: String(systemId) }, cookie: m.cookie });
-    expect(r.status).toBe(200);
-    const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}/search`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
+    const { html } = await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${systemId}/search?maxPower=1.1&beyond=1`, { id: String(systemId) });
     const cut = /data-testid="search-power-cut"[^>]*>(.*?)<\/span>/s.exec(html)?.[1] ?? "";
     expect(cut).toBe(` · list cut: the max shaft power 1.10 kW is judged at each pump's operating point, so the search judged the ranked pumps in turn and stopped after ${SEARCH_POWER_JUDGED} (${SEARCH_POWER_JUDGED} at most), ${limited.hidden.overPower} of them above it; pumps further down the ranking that would pass are not shown (a higher limit or narrower filters show them)`);
   });

@@ -6,9 +6,6 @@
 // Check values: the candidates table's own evaluation of the same pump (systemWorkbench → evaluateCandidate,
 // the identity the rows must keep) and the booster fixture's duty (app/lib/projects/test-kit.ts: 40 m³/h at 38 m
 // typed, 32.6 m needed by the system at most lift, aged pipe).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -21,6 +18,7 @@ import { inSI } from "~/engine/quantityText";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { call } from "./harness";
+import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -128,11 +126,7 @@ describe("the read API and the page carry the same", () => {
   });
 
   test("page: the How cell reads the judged setting with its rpm; the rule under the table says which point", async () => {
-    const r = await call(searchPage.loader as never, { path: `/systems/${typed38}/search?beyond=1`, params: { id: String(typed38) }, cookie: fx.m.cookie });
-    expect(r.status).toBe(200);
-    const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${typed38}/search`], hydrationData: { loaderData: { "0": r.body } } } as never))
-      .replace(/<!-- -->/g, "").replace(/&quot;/g, '"').replace(/&#x27;/g, "'");
+    const { html } = await loadedPage(fx.m, searchPage, "/systems/:id/search", `/systems/${typed38}/search?beyond=1`, { id: String(typed38) });
     const row = find((await search(typed38)).results, "TFS Meregate 200", 295, "speed")!;
     const cell = (id: string) => new RegExp(`data-testid="${id}"[^>]*>(.*?)</(td|p)>`, "s").exec(html)?.[1] ?? "";
     expect(cell(`search-how-${row.curveSetId}`)).toBe(`slow down to 57.9 % (${Math.round(row.speed!)} rpm)`);

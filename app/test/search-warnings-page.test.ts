@@ -4,9 +4,6 @@
 // verdict cell says them too, in plain text, through the loader's units rendering. Real MariaDB, the route's loader and
 // component; 200 invented curve sets (app/test/big-library.ts). Check values: the engine's own warning text (identity with
 // the API row's `warnings`), the affinity laws' trim being approximate (common practice, from memory).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createLibrary, updateLibrary, type Viewer } from "~/lib/libraries";
@@ -16,7 +13,8 @@ import { searchResultView } from "~/lib/projects/search-view";
 import { importCsvText, M3H, viewerOfUser } from "~/lib/projects/test-kit";
 import * as searchPage from "~/routes/systems.$id.search";
 import { bigLibraryCsv } from "./big-library";
-import { call, makeMember, type TestMember } from "./harness";
+import { makeMember, type TestMember } from "./harness";
+import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -33,12 +31,8 @@ beforeAll(async () => {
   systemId = await createSystem(v, p, "Low duty", { ...defaultSystemInput(), staticLow: 10.5, staticHigh: 11, duty: { flow: 25 * M3H, head: 12 } });
 }, 60_000);
 
-async function pageHtml(query: string) {
-  const r = await call(searchPage.loader as never, { path: `/systems/${systemId}/search${query}`, params: { id: String(systemId) }, cookie: m.cookie });
-  expect(r.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => r.body }]);
-  return renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}/search`], hydrationData: { loaderData: { "0": r.body } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
-}
+const pageHtml = async (query: string) =>
+  (await loadedPage(m, searchPage, "/systems/:id/search", `/systems/${systemId}/search${query}`, { id: String(systemId) })).html;
 const warningsOf = (html: string, id: number) => new RegExp(`data-testid="search-warnings-${id}"[^>]*>(.*?)</p>`, "s").exec(html)?.[1] ?? null;
 
 describe("a trimmed pump's row", () => {

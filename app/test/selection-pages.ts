@@ -1,13 +1,11 @@
 // Tests only: a selection's report and CSV as their own route modules give them (loader data rendered with the page
 // component on the server, the CSV loader's text parsed), for tests that read what the engineer sees and downloads.
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { expect } from "vitest";
 import Papa from "papaparse";
 import SelectionReport, * as selectionPage from "~/routes/selections.$id";
 import * as selectionCsv from "~/routes/selections.$id.export-csv";
 import { call, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 /** Markup as visible text: comments and tags dropped, the usual entities decoded, white space folded. */
 export const textOf = (html: string) =>
@@ -19,8 +17,7 @@ export type SelectionPages = { html: string; text: string; csv: string[][]; csvT
 export async function selectionPages(m: TestMember, id: number): Promise<SelectionPages> {
   const sel = await call(selectionPage.loader as never, { path: `/selections/${id}`, cookie: m.cookie, params: { id: String(id) } });
   expect(sel.status).toBe(200);
-  const Stub = createRoutesStub([{ path: "/selections/:id", Component: SelectionReport as never, loader: () => sel.body }]);
-  const html = renderToString(createElement(Stub, { initialEntries: [`/selections/${id}`], hydrationData: { loaderData: { "0": sel.body } } } as never));
+  const html = renderPage("/selections/:id", SelectionReport, `/selections/${id}`, sel.body);
   const csv = await call(selectionCsv.loader as never, { path: `/selections/${id}/export.csv`, cookie: m.cookie, params: { id: String(id) } });
   expect(csv.status).toBe(200);
   const csvText = String(csv.body);

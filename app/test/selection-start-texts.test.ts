@@ -64,7 +64,7 @@ describe("two drooping pumps in parallel, 36–37 m static, duty 54 m³/h: meets
     expect(csvFigures(pages.csv).get("verdict_start")?.[0]).toBe(note); // old code: no verdict_start row
     const line = textOf(/data-testid="report-verdict-start"[^>]*>([\s\S]*?)<\/span>/.exec(pages.html)?.[1] ?? "");
     expect(line).toBe(`— ${note}`);
-    expect(pages.html).toContain("meets the duty, but not met if started one after another");
+    expect(pages.html).toContain("meets the duty, but NPSH not checked, but not met if started one after another"); // the droop pumps publish no NPSHr (decision "npshzero")
   });
   test("the flip: 30–32 m static, pump 1 alone holds less than its 40 m shut-off head, pump 2 starts: no qualifier, an empty verdict_start", async () => {
     const { pages } = await select("Two in parallel, less lift", sys({ staticLow: 30, staticHigh: 32, duty: { flow: 54 * M3H, head: 40 } }), { ...DEFAULT_ADJUSTMENT, arrangement: "parallel", dutyPumps: 2 });

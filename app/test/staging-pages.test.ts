@@ -4,9 +4,6 @@
 // invented pump (the energy fixture's: 36 m³/h at 15.5 m, curve end 55 m³/h at 7 m). Check values: one pump's curve
 // ends at 55 m³/h, so 25 % of a 72 m³/h duty (18 m³/h) is within one pump's reach and 90 % (64.8 m³/h) is not (hand arithmetic).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { closeDb } from "@db/client.server";
 import { createLibrary, listModels } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, selectCandidate, systemWorkbench } from "~/lib/projects";
@@ -14,6 +11,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, type Adjustment, type SystemInp
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import { call, makeMember } from "./harness";
+import { renderPage } from "./render-page";
 import { csvHeader, selectionPages, textOf, type SelectionPages } from "./selection-pages";
 
 const PUMP_CSV = [
@@ -39,8 +37,7 @@ beforeAll(async () => {
     if (!added.ok) throw new Error(added.reason);
     const sys = await call(systemPage.loader as never, { path: `/systems/${systemId}`, cookie: m.cookie, params: { id: String(systemId) } });
     expect(sys.status).toBe(200);
-    const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPage as never, loader: () => sys.body }]);
-    const system = textOf(renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}`], hydrationData: { loaderData: { "0": sys.body } } } as never)));
+    const system = textOf(renderPage("/systems/:id", SystemPage, `/systems/${systemId}`, sys.body));
     const id = await selectCandidate(v, (await systemWorkbench(v, systemId)).candidates[0].id, `Loop ${name}`, "");
     got[name] = { system, pages: await selectionPages(m, id) };
   }

@@ -4,9 +4,6 @@
 // workspace id (a hidden field: no script needed) and the action refuses with 409 when it differs.
 // Real route modules, guards and MariaDB; Stripe is the local stand-in (fixtures/stripe).
 // Check values: our own product rule (act only on what the page showed) — common practice for forms.
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { describe, expect, test } from "vitest";
 import { and, eq, isNull } from "drizzle-orm";
 import { db } from "@db/client.server";
@@ -18,6 +15,7 @@ import * as billingRoute from "~/routes/workspace.billing";
 import BillingPage from "~/routes/workspace.billing";
 import { kit, subscribe, useBillingStandIn, ws } from "~/lib/billing/test-kit";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { alsoMemberOf, carries, formsOf, STALE, switchTo } from "./workspace-tabs";
 
 useBillingStandIn();
@@ -109,8 +107,7 @@ describe("the workspace page's forms", () => {
     await makeMember("engineer", a.workspaceId);
     await invite({ workspaceId: a.workspaceId, workspaceName: "A", inviterId: a.userId, inviterName: "A", email: "pending@example.test", role: "viewer" });
     const d = (await call(workspaceRoute.loader as never, { path: "/workspace", cookie: a.cookie })).body;
-    const Stub = createRoutesStub([{ path: "/workspace", Component: WorkspacePage as never, loader: () => d }]);
-    const html = renderToString(createElement(Stub, { initialEntries: ["/workspace"], hydrationData: { loaderData: { "0": d } } } as never));
+    const html = renderPage("/workspace", WorkspacePage, "/workspace", d);
     const forms = formsOf(html);
     const switches = forms.filter((f) => f.includes('value="switch"'));
     const others = forms.filter((f) => !f.includes('value="switch"'));
@@ -161,8 +158,7 @@ describe("the billing page's forms", () => {
     await subscribe(paid);
     for (const [m, count] of [[free, 1], [paid, 2]] as const) {
       const d = (await call(billingRoute.loader as never, { path: "/workspace/billing", cookie: m.cookie })).body;
-      const Stub = createRoutesStub([{ path: "/workspace/billing", Component: BillingPage as never, loader: () => d }]);
-      const html = renderToString(createElement(Stub, { initialEntries: ["/workspace/billing"], hydrationData: { loaderData: { "0": d } } } as never));
+      const html = renderPage("/workspace/billing", BillingPage, "/workspace/billing", d);
       const forms = formsOf(html);
       expect(forms).toHaveLength(count);
       for (const f of forms) expect(carries(f, m.workspaceId)).toBe(true);

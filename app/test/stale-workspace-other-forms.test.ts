@@ -8,15 +8,12 @@
 // Forms whose address pins the workspace (a project's share form, a library's or system's page…) are not
 // here: another workspace's id answers 404 (access-sweep*.test.ts). Real route modules, guards, MariaDB.
 // Check values: our own product rule (act only on what the page showed) — common practice for forms.
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, describe, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { apiTokens, fieldChecks, libraries, projects, workspaces } from "@db/schema";
 import { fluidAt } from "~/engine";
-import { shareProject } from "~/lib/projects";
+import { shareAccepted } from "~/lib/projects/test-kit";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { requireMember } from "~/lib/auth/guards.server";
 import * as projectsRoute from "~/routes/projects";
@@ -29,6 +26,7 @@ import * as fieldRoute from "~/routes/field.selections.$id";
 import FieldPage from "~/routes/field.selections.$id";
 import * as queueRoute from "~/routes/field.selections.$id.checks";
 import { BASE, call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 import { alsoMemberOf, carries, formError, formsOf, OLDER_PAGE, STALE, switchTo } from "./workspace-tabs";
 
@@ -49,8 +47,7 @@ async function twoWorkspaces(role: TestMember["role"] = "admin", roleInB: TestMe
 /** The page of `path` as the server renders it for `m` (plain HTML: what a browser without JavaScript posts). */
 async function rendered(m: TestMember, path: string, Component: unknown, loader: unknown, params: Record<string, string> = {}) {
   const d = (await call(loader as never, { path, cookie: m.cookie, params })).body;
-  const Stub = createRoutesStub([{ path: path.replace(/\d+$/, ":id"), Component: Component as never, loader: () => d }]);
-  return renderToString(createElement(Stub, { initialEntries: [path], hydrationData: { loaderData: { "0": d } } } as never));
+  return renderPage(path.replace(/\d+$/, ":id"), Component, path, d);
 }
 
 const creates = [
@@ -144,7 +141,7 @@ describe("a field check on a selection open to both workspaces", () => {
     const sel = await storeSelection(A, a.userId, undefined, `Tabs ${Date.now()}`);
     const asA = viewerOf(await requireMember(new Request(BASE, { headers: { cookie: a.cookie } })));
     const [{ slug }] = await db().select({ slug: workspaces.slug }).from(workspaces).where(eq(workspaces.id, B));
-    expect(await shareProject(asA, sel.projectId, slug)).toMatchObject({ ok: true });
+    await shareAccepted(asA, sel.projectId, slug);
     const params = { id: String(sel.selectionId) };
     const loaded = await call(fieldRoute.loader as never, { path: `/field/selections/${sel.selectionId}`, cookie: a.cookie, params });
     expect(loaded.status).toBe(200);

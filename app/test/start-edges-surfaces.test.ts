@@ -4,9 +4,6 @@
 // parallel a pump starts against the head of those running, behind a check valve); the drooping curve is invented
 // (droop-pump.ts: 40 m shut-off, 41.9 m peak) and the heads and flows quoted are read off it — the numbers the old two lines
 // showed, one per edge (arrangement-start-edges.test.ts).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -19,6 +16,7 @@ import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { importDroopPump } from "./droop-pump";
 import { csvFigures, selectionPages, textOf } from "./selection-pages";
 
@@ -58,8 +56,7 @@ describe("pump 2 of 2 cannot start at either edge: one line, both edges' numbers
   test("the system page's candidates table lists it once", async () => {
     const r = await call(systemPage.loader as never, { path: `/systems/${systemId}`, params: { id: String(systemId) }, cookie: m.cookie });
     expect(r.status).toBe(200);
-    const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPageView as never, loader: () => r.body }]);
-    const text = textOf(renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}`], hydrationData: { loaderData: { "0": r.body } } } as never)));
+    const text = textOf(renderPage("/systems/:id", SystemPageView, `/systems/${systemId}`, r.body));
     expect(text.split("cannot open its check valve, so only")).toHaveLength(2); // once; old code: twice
     expect(text).toContain("40.5 m at 56.1 m³/h (least lift, new pipe) and 41.5 m at 46.7 m³/h (most lift, aged pipe)");
   });

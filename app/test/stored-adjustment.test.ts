@@ -6,9 +6,6 @@
 // comparison and selection (409), the read API lists it apart; applying an adjustment or removing it is the way out.
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (stored-adjustment.ts,
 // the schema's own messages and limits in candidate-input.ts) and the demo curves (fixtures/demo/tallowmere.csv, invented).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -22,6 +19,7 @@ import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import { call, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -84,8 +82,7 @@ describe.each(CASES)("a candidate's stored adjustment with $name", (c) => {
 
   test("the page renders it in the candidates panel (problem, adjust form, remove), not in the comparison table, and without NaN", async () => {
     const data = (await page(s.systemId)).body;
-    const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPageView as never, loader: () => data }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${s.systemId}`], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "");
+    const html = renderPage("/systems/:id", SystemPageView, `/systems/${s.systemId}`, data).replace(/<!-- -->/g, "");
     const review = /data-testid="candidates-needing-review"[\s\S]*?(?=<\/section>)/.exec(html)?.[0] ?? "";
     expect(review).toContain("1 candidate needs review: the stored adjustment does not pass the checks");
     expect(review).toContain(c.label);

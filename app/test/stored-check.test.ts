@@ -9,7 +9,6 @@
 // stored-doc.ts); the fixture's straight-line curve (H = 40 − 1000·Q) is invented (app/test/fieldcheck-fixture.ts).
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -27,6 +26,7 @@ import * as fieldQueue from "~/routes/field.selections.$id.checks";
 import * as fieldCsv from "~/routes/field.selections.$id.export-csv";
 import * as checkPage from "~/routes/field.checks.$id";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -132,8 +132,7 @@ describe.each(CASES)("a recorded check with $name", (c) => {
     const p = body.problems.find((x) => x.label === c.label);
     expect(p?.message ?? JSON.stringify(body.problems)).toMatch(c.message);
     expect(p?.stored ?? null).toBe(c.stored);
-    const Stub = createRoutesStub([{ path: "/field/checks/:id", Component: checkPage.default as never, loader: () => body }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/field/checks/${s.damaged}`], hydrationData: { loaderData: { "0": body } } } as never)).replace(/<!-- -->/g, "");
+    const html = renderPage("/field/checks/:id", checkPage.default, `/field/checks/${s.damaged}`, body).replace(/<!-- -->/g, "");
     expect(html).toContain("This check cannot be read: its stored record does not pass the checks");
     expect(html).toContain(c.label);
     expect(html).toContain(`Field check ${s.damaged}`);

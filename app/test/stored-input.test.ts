@@ -6,9 +6,6 @@
 // read API refuse with 409 (problem+json for the API), never a default number and never a 500.
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (stored-input.ts, the
 // schema's own limits in system-input.ts) and the demo curves (fixtures/demo/tallowmere.csv, invented).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq, ne } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -26,6 +23,7 @@ import * as projectPage from "~/routes/projects.$id";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import { call, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -103,8 +101,7 @@ describe.each(CASES)("stored input with $name", (c) => {
 
   test("the system page renders it: the review panel with the problem, the stored values in the editor, no chart, candidates or pump search link", async () => {
     const data = (await page(s.systemId)).body;
-    const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPageView as never, loader: () => data }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${s.systemId}`], hydrationData: { loaderData: { "0": data } } } as never));
+    const html = renderPage("/systems/:id", SystemPageView, `/systems/${s.systemId}`, data);
     expect(html).toContain("This system needs review: its stored inputs do not pass the checks");
     expect(html).toContain(c.label);
     expect(html).not.toContain("System curve");

@@ -9,9 +9,6 @@
 // Real route module, guards and MariaDB (app/test/harness.ts). Check values: our product rules (upload-analysis.ts,
 // stored-doc.ts), MappingSchema's own messages (app/lib/import/mapping.ts); the demo CSV is invented (fixtures/demo/).
 import { readFileSync } from "node:fs";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -23,6 +20,7 @@ import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
 import * as uploadApi from "~/routes/api.v1.libraries.$id.upload";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -113,8 +111,7 @@ describe.each(CASES)("a saved mapping $name", (c) => {
     expect(line.endsWith(stored), line).toBe(true);
     expect(line.slice(c.label.length + 2, line.length - stored.length)).toMatch(c.message);
     const data = page; // the loader's own answer
-    const Stub = createRoutesStub([{ path: "/libraries/:id/uploads/:uploadId", Component: uploadPage.default as never, loader: () => data }]);
-    const html = renderToString(createElement(Stub, { initialEntries: [`/libraries/${ctx.lib}/uploads/${ctx.upload}`], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "");
+    const html = renderPage("/libraries/:id/uploads/:uploadId", uploadPage.default, `/libraries/${ctx.lib}/uploads/${ctx.upload}`, data).replace(/<!-- -->/g, "");
     expect(html).toContain('data-testid="saved-mapping-unreadable">The column mapping saved with this library from its last import cannot be read');
     expect(html).not.toContain("Using the column mapping saved with this library");
   });

@@ -4,9 +4,6 @@
 // the form as the page posts it without script, and the route's action; then the stored document read back.
 // Check values: the engine's catalogue (pipes.ts: Steel, Schedule 40 lists 1/2 to 24, no "30"; no table "steel-sch30"), the
 // warning's words (system-input.ts `sizeNotInCatalogue`), bores invented (0.7 m, 0.1023 m).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -19,6 +16,7 @@ import { renderUnits, SI_UNITS } from "~/lib/shared/units";
 import * as systemPage from "~/routes/systems.$id";
 import SystemPageView from "~/routes/systems.$id";
 import { call, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -69,8 +67,7 @@ describe.each(CASES)("a stored run with $name", ({ run }) => {
     const r = await call(systemPage.loader as never, { path: `/systems/${systemId}`, params: { id: String(systemId) }, cookie: m.cookie });
     expect(r.status).toBe(200);
     const data = r.body;
-    const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPageView as never, loader: () => data }]);
-    html = renderToString(createElement(Stub, { initialEntries: [`/systems/${systemId}`], hydrationData: { loaderData: { "0": data } } } as never));
+    html = renderPage("/systems/:id", SystemPageView, `/systems/${systemId}`, data);
   });
 
   test("the editor shows the table and size as stored, with the warning's words beside them (was: the size shown as —)", () => {

@@ -6,9 +6,6 @@
 // saving writes sound settings in their place. The API's /me answers as before (never a 500).
 // Real route modules, guards and MariaDB (app/test/harness.ts). Check values: our product rules (auth/stored-units.ts, the
 // account form's choices in routes/account.tsx), the engine's unit ids and labels (engine/units.ts).
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db, getPool } from "@db/client.server";
@@ -17,6 +14,7 @@ import { createApiToken } from "~/lib/auth/api-tokens.server";
 import * as accountRoute from "~/routes/account";
 import * as meApi from "~/routes/api.v1.me";
 import { BASE, call, makeMember, userRow, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -25,8 +23,7 @@ type Page = { user: { unitSystem: string; overrides: Record<string, string> }; u
 
 const page = (m: TestMember) => call(accountRoute.loader as never, { path: "/account", cookie: m.cookie });
 const render = (data: unknown) => {
-  const Stub = createRoutesStub([{ path: "/account", Component: accountRoute.default as never, loader: () => data }]);
-  return renderToString(createElement(Stub, { initialEntries: ["/account"], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "");
+  return renderPage("/account", accountRoute.default, "/account", data).replace(/<!-- -->/g, "");
 };
 
 /** MariaDB refuses a value outside an ENUM in strict mode; without it the value is stored as '' (what a loose import leaves). */

@@ -109,7 +109,7 @@ describe("POST /api/v1/systems/:id/preview: the static heads' order", () => {
     expect(r.headers.get("content-type")).toBe("application/problem+json");
     const errors = (r.body as { errors: { field: string; message: string }[] }).errors;
     // The editor's message (system-form.ts, via staticHighBelowLow), written out in SI for a token.
-    expect(errors).toEqual([{ field: "input.staticHigh", message: expect.stringMatching(/^The static head at high level, 26(\.0+)? m, is below the one at low level, 30(\.0+)? m: high level is the most lift/) }]);
+    expect(errors).toEqual([{ field: "input.staticHigh", pointer: "/input/staticHigh", message: expect.stringMatching(/^The static head at high level, 26(\.0+)? m, is below the one at low level, 30(\.0+)? m: high level is the most lift/) }]);
     // Control: the same band the right way round, one level, and a closed loop (its static heads unused) all preview.
     expect((await preview({ ...booster(), staticLow: 26, staticHigh: 30 })).status).toBe(200);
     expect((await preview({ ...booster(), staticLow: 28, staticHigh: 28 })).status).toBe(200);
@@ -203,7 +203,7 @@ describe("searchResultView (pure)", () => {
     const point = (ratio: number) => ({ at: "least lift, new pipe", flow: 0.01, available: 2 * ratio, required: 2, marginRatio: ratio });
     const npsh = (ratio: number) => ({ status: ratio < 1 ? "cavitation-risk" : ratio < 1.1 ? "low-margin" : "ok", marginRatio: ratio, at: "least lift, new pipe", available: 2 * ratio, rule: "r", requiredMargin: 1.1, judgedAt: [point(ratio)] });
     expect(searchResultView({ ...base, verdict, npsh: npsh(1.2) }).verdictNpsh).toBeNull();
-    expect(searchResultView({ ...base, verdict, npsh: npsh(0.81) }).verdictNpsh).toBe("but NPSHa ⟦head|1.62|2⟧ below NPSHr ⟦head|2|1.62⟧ at least lift, new pipe (NPSHa / NPSHr 0.81, below 1): cavitation risk");
+    expect(searchResultView({ ...base, verdict, npsh: npsh(0.81) }).verdictNpsh).toBe("but NPSHa ⟦head|1.62|zero:2⟧ below NPSHr ⟦head|2|1.62⟧ at least lift, new pipe (NPSHa / NPSHr 0.81, below 1): cavitation risk");
     expect(searchResultView({ ...base, verdict: null, npsh: npsh(0.81) }).verdictNpsh).toBeNull();
   });
   test("passes the band's NPSH judgement through (its NPSHa null when a stored one lacks it), null without", () => {

@@ -2,12 +2,10 @@
 // unit its field does not take ("Head (kPa)") offers no unit — its select starts on "choose…" and says why — while
 // a column whose unit was only assumed keeps its default and the "assumed" mark. The file is invented.
 import { describe, expect, it } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import UploadPreview, { type loader } from "~/routes/libraries.$id.uploads.$uploadId";
 import { analyseStored, summarise } from "~/lib/libraries/upload-analysis";
 import { SI_UNITS } from "~/lib/shared/units";
+import { renderPage } from "./render-page";
 
 const csv = "Model,Speed rpm,Flow,Head (kPa)\nA,2900,0,200\nA,2900,10,190\nA,2900,20,170\n";
 
@@ -19,8 +17,7 @@ function render(text: string): string {
     correctedFrom: null,
     ...summarise(analyseStored(text, { mappingJson: null })),
   } satisfies Awaited<ReturnType<typeof loader>>; // the loader's own shape
-  const Stub = createRoutesStub([{ path: "/libraries/:id/uploads/:uploadId", Component: UploadPreview as never, loader: () => data }]);
-  return renderToString(createElement(Stub, { initialEntries: ["/libraries/1/uploads/2"], hydrationData: { loaderData: { "0": data } } } as never));
+  return renderPage("/libraries/:id/uploads/:uploadId", UploadPreview, "/libraries/1/uploads/2", data);
 }
 const selectOf = (html: string, label: string) => [...html.matchAll(/<select[^>]*aria-label="([^"]*)"[^>]*>([\s\S]*?)<\/select>/g)].find((m) => m[1] === label)?.[2] ?? "";
 const selected = (options: string) => /<option value="([^"]*)" selected="">/.exec(options)?.[1];

@@ -5,9 +5,6 @@
 // step it is above the wanted 1.1 and nothing is said. Rule: common practice (staging-npsh.ts). Invented pump (the energy
 // fixture's, with an invented NPSHr column).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { createLibrary, listModels, type Viewer } from "~/lib/libraries";
@@ -18,6 +15,7 @@ import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as selectionJson from "~/routes/selections.$id.export-json";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
 import { call, makeMember, type TestMember } from "./harness";
+import { renderPage } from "./render-page";
 import { selectionPages, textOf } from "./selection-pages";
 
 afterAll(() => closeDb());
@@ -58,8 +56,7 @@ describe("NPSH short at a staged step qualifies the verdict on every headline; n
     for (const k of ["short", "ok"] as const) {
       const sys = await call(systemPage.loader as never, { path: `/systems/${systems[k]}`, cookie: m.cookie, params: { id: String(systems[k]) } });
       expect(sys.status).toBe(200);
-      const Stub = createRoutesStub([{ path: "/systems/:id", Component: SystemPage as never, loader: () => sys.body }]);
-      const html = renderToString(createElement(Stub, { initialEntries: [`/systems/${systems[k]}`], hydrationData: { loaderData: { "0": sys.body } } } as never));
+      const html = renderPage("/systems/:id", SystemPage, `/systems/${systems[k]}`, sys.body);
       const cell = /data-testid="verdict-\d+-staged-npsh"[^>]*>([\s\S]*?)<\/span>/.exec(html);
       if (k === "short") {
         expect(textOf(cell?.[1] ?? "")).toMatch(new RegExp(`^— ${LINE.source.slice(1)}`));

@@ -6,9 +6,6 @@
 // Check values: common practice, from memory (in parallel a pump starts against the head of those running, behind a check
 // valve); the note's text and its heads and flows are those selection-start-texts.test.ts reads off the invented curve below
 // (40 m shut-off, 41.9 m peak): pump 1 alone holds 41.2 m and delivers 50.8 m³/h at most lift, aged pipe.
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
@@ -23,6 +20,7 @@ import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
 import { call, makeMember, type TestMember } from "./harness";
+import { plainHtml, renderPage } from "./render-page";
 import { DROOP_ROWS, importDroopPump } from "./droop-pump";
 
 afterAll(() => closeDb());
@@ -129,10 +127,7 @@ describe("search row: verdictStart beside verdictNpsh", () => {
     const i = body.results.findIndex((x) => x.curveSetId === setId);
     expect(i).toBeGreaterThanOrEqual(0);
     expect(body.results[i]).not.toHaveProperty("verdictStart"); // the real row: one pump, no note, no key
-    const html = (data: unknown) => {
-      const Stub = createRoutesStub([{ path: "/systems/:id/search", Component: searchPage.default as never, loader: () => data }]);
-      return renderToString(createElement(Stub, { initialEntries: [`/systems/${a1Id}/search`], hydrationData: { loaderData: { "0": data } } } as never)).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
-    };
+    const html = (data: unknown) => plainHtml(renderPage("/systems/:id/search", searchPage.default, `/systems/${a1Id}/search`, data));
     expect(html(body)).not.toContain(`search-verdict-${setId}-start`);
     const withNote = { ...body, results: body.results.map((x, j) => (j === i ? { ...x, verdictStart: NOTE } : x)) };
     const line = /data-testid="search-verdict-(\d+)-start"[^>]*>([\s\S]*?)<\/span>/.exec(html(withNote));

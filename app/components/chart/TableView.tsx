@@ -5,7 +5,7 @@
  */
 import type { ReactNode } from "react";
 import { interpolateAt } from "./curves.ts";
-import { formatValue } from "./format.ts";
+import { formatNpshaValue, formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type DisplayPump } from "./model.ts";
 import { curvePowerHeading, powerHeading } from "./power-basis.ts";
 
@@ -128,7 +128,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
                   </td>
                 )),
               )}
-              {hasNpsha && <td className={td}>{formatValue(interpolateAt(model.npsha, f))}</td>}
+              {hasNpsha && <td className={td}>{formatNpshaValue(interpolateAt(model.npsha, f))}</td>}
             </tr>
           ))}
         </tbody>

@@ -17,3 +17,12 @@ export function formatValue(v: number | null | undefined): string {
   // Avoid "-0.0".
   return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
 }
+
+/**
+ * NPSHa as the chart's readout and table view give it (display units): above zero and below 0.001, "< 0.001" (it read
+ * "0.000", as NPSHa at zero; decision "npshzero", as the app's other NPSHa texts); otherwise as {@link formatValue}.
+ * @param v NPSHa in the chart's NPSH unit (m or ft)
+ */
+export function formatNpshaValue(v: number | null | undefined): string {
+  return v != null && v > 0 && v < 0.001 ? "< 0.001" : formatValue(v);
+}

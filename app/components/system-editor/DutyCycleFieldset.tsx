@@ -1,7 +1,8 @@
 // The system's load profile, control mode and life-cycle settings, inside the system form.
 // Works without JavaScript: every field posts; the step rows are fixed (blank rows are ignored).
 import { CONTROL_MODES, CIRCULATOR_PROFILE_SOURCE, defaultCirculatorProfile } from "~/engine";
-import { MAX_PROFILE_STEPS, type EnergySettings } from "~/lib/projects/energy";
+import { DEFAULT_ENERGY_SETTINGS, MAX_LCC_YEARS, MAX_PROFILE_STEPS, MIN_LCC_YEARS, type EnergySettings } from "~/lib/projects/energy";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRangeText } from "~/lib/projects/lcc-ranges";
 import { NumberField } from "./NumberField";
 
 // Blank for NaN: a stored value that is missing or not a number (stored-input.ts `editorInput`).
@@ -75,7 +76,7 @@ export function DutyCycleFieldset({ energy, hoursPerYear, errors, currency }: { 
         <NumberField label="Discount rate (% per year)" name="energy.discount" def={pctText(energy.discountRate)} errors={errors} />
       </div>
       <p className="text-xs text-slate-500">
-        Tariff escalation or discount rate left blank: 0 % per year (no escalation, no discounting). Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
+        Left blank: tariff escalation and discount rate 0 % a year (no escalation, no discounting), years {DEFAULT_ENERGY_SETTINGS.years}. Years: a whole number from {MIN_LCC_YEARS} to {MAX_LCC_YEARS}. Tariff escalation: {rateRangeText(ESCALATION_RANGE)}. Discount rate: {rateRangeText(DISCOUNT_RANGE)}. Life-cycle cost = purchase price + present value of the energy cost over the years (tariff escalating, discounted at the end of each year; {currency || "workspace currency"}). Maintenance and disposal are not included.
       </p>
     </section>
   );

@@ -2,7 +2,8 @@
 // material, roughness, fittings), remove on save, and the buttons that add a run.
 import { useState } from "react";
 import { EDITOR_FITTINGS, MATERIAL_OPTIONS, materialForTable, roughnessHints } from "~/lib/projects/system-form";
-import { labelOf } from "~/lib/shared/units";
+import { BORE_RANGE, rangeText } from "~/lib/projects/run-ranges";
+import { labelOf, renderUnits } from "~/lib/shared/units";
 import { PipePicker } from "./PipePicker";
 import { NumberField as In } from "./NumberField";
 import type { FieldsetProps, SystemFormValues } from "./types";
@@ -73,7 +74,7 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
             if (shown) setShown(next);
           }}
         />
-        <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.stored ? "The stored bore: used while the size above stays as stored." : r.table ? "Used only without a table size (see above)." : undefined} />
+        <In label="Inner diameter" unit={u("diameter")} name={`run.${i}.diameter`} def={r.diameter} placeholder={r.diameterShown} errors={errors} hint={r.stored ? "The stored bore: used while the size above stays as stored." : r.table ? "Used only without a table size (see above)." : `Typed bore: ${renderUnits(rangeText({ ...BORE_RANGE, why: undefined }), unitSystem)}.`} />
         <In label="Length" unit={u("length")} name={`run.${i}.length`} def={r.length} errors={errors} />
         <div>
           <label className="label" htmlFor={`f-run.${i}.material`}>

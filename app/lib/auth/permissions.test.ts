@@ -7,6 +7,7 @@ const EXPECTED: Record<Permission, Record<Role, boolean>> = {
   "workspace.read": { admin: true, engineer: true, distributor: true, contractor: true, viewer: true },
   "workspace.rename": { admin: true, engineer: false, distributor: false, contractor: false, viewer: false },
   "members.manage": { admin: true, engineer: false, distributor: false, contractor: false, viewer: false },
+  "shares.decide": { admin: true, engineer: false, distributor: false, contractor: false, viewer: false },
   "billing.manage": { admin: true, engineer: false, distributor: false, contractor: false, viewer: false },
   "billing.read": { admin: true, engineer: true, distributor: true, contractor: true, viewer: true },
   "project.read": { admin: true, engineer: true, distributor: false, contractor: true, viewer: true },

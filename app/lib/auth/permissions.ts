@@ -15,6 +15,8 @@ export const PERMISSIONS = {
   "workspace.read": ["admin", "engineer", "distributor", "contractor", "viewer"],
   "workspace.rename": ["admin"],
   "members.manage": ["admin"],
+  /** Accept or decline a project another workspace offers this one (it opens that project's selections to every member). */
+  "shares.decide": ["admin"],
   "billing.manage": ["admin"],
   "billing.read": ["admin", "engineer", "distributor", "contractor", "viewer"],
   "project.read": ["admin", "engineer", "contractor", "viewer"],

@@ -1,10 +1,8 @@
 // The billing page in each subscription state: what the loader gives (real MariaDB, the Stripe stand-in
 // moving the subscription through its states) and what the page then says, rendered on the server.
 import { describe, expect, test } from "vitest";
-import { createElement } from "react";
-import { renderToString } from "react-dom/server";
-import { createRoutesStub } from "react-router";
 import { call, makeMember, type TestMember } from "~/test/harness";
+import { renderPage } from "~/test/render-page";
 import * as billingRoute from "~/routes/workspace.billing";
 import { kit, useBillingStandIn, subscribe, subscriptionIn, waitFor, ws } from "./test-kit";
 
@@ -14,8 +12,7 @@ async function pageOf(admin: TestMember) {
   const r = await call(billingRoute.loader as never, { path: "/workspace/billing", cookie: admin.cookie });
   expect(r.status).toBe(200);
   const data = r.body as Record<string, unknown>;
-  const Stub = createRoutesStub([{ path: "/workspace/billing", Component: billingRoute.default as never, loader: () => data }]);
-  const html = renderToString(createElement(Stub, { initialEntries: ["/workspace/billing"], hydrationData: { loaderData: { "0": data } } } as never));
+  const html = renderPage("/workspace/billing", billingRoute.default, "/workspace/billing", data);
   const text = html.replace(/<[^>]*>/g, "").replace(/&#x27;/g, "'").replace(/&quot;/g, '"').replace(/&amp;/g, "&");
   return { data, text };
 }

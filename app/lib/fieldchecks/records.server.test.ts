@@ -10,6 +10,7 @@ import { fieldSelection, getFieldCheck, checkHistory, recordFieldCheck } from ".
 import { readPhotos, sniffImage, PhotoRejected } from "./photos.server";
 import { evaluateCheck, historyCsv, inputPowerW, parseCheckFields, speedRpm, type Readings } from "./index";
 import { listShares, shareProject, unshareProject } from "../projects/shares.server";
+import { shareAccepted } from "../projects/test-kit";
 import { call, makeMember, type TestMember } from "~/test/harness";
 import { fieldsForHead, frozenFixture, linearPoints, storeSelection } from "~/test/fieldcheck-fixture";
 import * as formRoute from "~/routes/field.selections.$id";
@@ -230,14 +231,17 @@ describe("recorded checks across workspaces", () => {
   });
   afterAll(() => closeDb());
 
-  test("not shared: 404; shared by slug: open to the contractor; sharing twice is one share", async () => {
+  test("not shared: 404; offered by slug: still 404 until the contractor's admin accepts, then open; offering twice is one share", async () => {
     await expect(fieldSelection(conV, sel.selectionId)).rejects.toMatchObject({ init: { status: 404 } });
     const r1 = await shareProject(engV, sel.projectId, conSlug);
     const r2 = await shareProject(engV, sel.projectId, conSlug.toUpperCase());
-    expect(r1).toMatchObject({ ok: true, already: false });
-    expect(r2).toMatchObject({ ok: true, already: true });
-    expect((await listShares(engV, sel.projectId)).shares).toHaveLength(1);
+    expect(r1).toMatchObject({ ok: true, outcome: "offered" });
+    expect(r2).toMatchObject({ ok: true, outcome: "pending" });
+    expect((await listShares(engV, sel.projectId)).shares).toMatchObject([{ state: "pending" }]);
     expect(await shareProject(engV, sel.projectId, "no such workspace anywhere")).toMatchObject({ ok: false });
+    await expect(fieldSelection(conV, sel.selectionId)).rejects.toMatchObject({ init: { status: 404 } }); // pending opens nothing
+    await shareAccepted(engV, sel.projectId, conSlug);
+    expect(await shareProject(engV, sel.projectId, conSlug)).toMatchObject({ ok: true, outcome: "accepted" });
     expect((await fieldSelection(conV, sel.selectionId)).id).toBe(sel.selectionId);
     // A contractor cannot share the engineer's project onwards.
     const denied = await call(shareRoute.action as never, { path: `/projects/${sel.projectId}/share`, cookie: con.cookie, params: { id: String(sel.projectId) }, form: { intent: "share", workspace: "x" } });
@@ -344,7 +348,7 @@ describe("recorded checks across workspaces", () => {
       expect(JSON.stringify(r.body)).not.toContain("Fixture");
     }
     const [share] = (await listShares(engV, sel.projectId)).shares;
-    expect(await unshareProject(engV, sel.projectId, share.id)).toBe(true);
+    expect(await unshareProject(engV, sel.projectId, share.id)).toBe("accepted");
     const r = await call(recordRoute.loader as never, { path: `/field/checks/${checkId}`, cookie: con.cookie, params: { id: String(checkId) } });
     expect(r.status).toBe(404);
     // … and the engineer still sees the checks recorded before.

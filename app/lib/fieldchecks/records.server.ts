@@ -4,7 +4,8 @@
 // pure `evaluate.ts` (which the phone also runs offline).
 //
 // Who sees what: a selection is open for field checks to its own workspace and to every workspace
-// its project is shared with; its checks are open to the same workspaces. Ids from elsewhere
+// its project is shared with and whose admins accepted the share (`openShareTo`: a pending or declined
+// share opens nothing); its checks are open to the same workspaces. Ids from elsewhere
 // answer 404, never data. A check is never edited: an amendment is a new version of its chain.
 import { createHash } from "node:crypto";
 import { and, desc, eq, inArray, or, sql } from "drizzle-orm";
@@ -12,6 +13,7 @@ import { data } from "react-router";
 import { db, withTransaction } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
 import { frozenOf } from "../projects/selections.server";
+import { openShareTo } from "../projects/shares.server";
 import type { Viewer } from "../libraries";
 import { evaluateCheck } from "./evaluate";
 import type { CheckFields, Readings } from "./form";
@@ -26,14 +28,14 @@ import { fmtUtc } from "../shared/format";
 const notFound = (what: string) => data(`No such ${what} open to this workspace.`, { status: 404 });
 
 // ── Access ─────────────────────────────────────────────────────────────────────────────────
-/** Workspace ids whose projects are shared with the viewer's workspace. */
+/** Ids of the projects shared with the viewer's workspace, the shares its admins accepted. */
 async function sharedProjectIds(viewer: Viewer): Promise<number[]> {
-  const rows = await db().select({ projectId: projectShares.projectId }).from(projectShares).where(eq(projectShares.workspaceId, viewer.workspace.id));
+  const rows = await db().select({ projectId: projectShares.projectId }).from(projectShares).where(openShareTo(viewer.workspace.id));
   return rows.map((r) => r.projectId);
 }
 
 /**
- * A selection open to the viewer for field checks (its own workspace's, or one of a project shared with it), without
+ * A selection open to the viewer for field checks (its own workspace's, or one of a project shared with it and accepted), without
  * reading its frozen document: what a recorded check's page needs (the check carries its own stored result).
  */
 export async function fieldSelectionRecord(viewer: Viewer, selectionId: number) {
@@ -43,7 +45,7 @@ export async function fieldSelectionRecord(viewer: Viewer, selectionId: number) 
     .innerJoin(projects, eq(projects.id, selections.projectId))
     .innerJoin(systems, eq(systems.id, selections.systemId))
     .innerJoin(workspaces, eq(workspaces.id, selections.workspaceId))
-    .leftJoin(projectShares, and(eq(projectShares.projectId, selections.projectId), eq(projectShares.workspaceId, viewer.workspace.id)))
+    .leftJoin(projectShares, and(eq(projectShares.projectId, selections.projectId), openShareTo(viewer.workspace.id)))
     .where(eq(selections.id, selectionId));
   if (!row || (row.s.workspaceId !== viewer.workspace.id && row.shareId == null)) throw notFound("selection");
   return {

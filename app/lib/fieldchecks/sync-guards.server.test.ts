@@ -13,7 +13,7 @@ import { call, makeMember, makeWorkspace, type TestMember } from "~/test/harness
 import { fieldsForHead, storeSelection } from "~/test/fieldcheck-fixture";
 import * as syncRoute from "~/routes/field.selections.$id.checks";
 import * as formRoute from "~/routes/field.selections.$id";
-import { shareProject } from "../projects/shares.server";
+import { shareAccepted } from "../projects/test-kit";
 import type { Viewer } from "../libraries";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density; // IAPWS-IF97 water at 20 °C through the engine (common practice)
@@ -37,7 +37,7 @@ describe("the phone's late sends", () => {
     wsB = { id: bRow.id, name: bRow.name, slug: bRow.slug };
     await db().insert(memberships).values({ workspaceId: wsB.id, userId: con.userId, role: "contractor" }); // the contractor works for B too
     sel = await storeSelection(eng.workspaceId, eng.userId, undefined, "Late");
-    expect(await shareProject(engV, sel.projectId, wsA.slug)).toMatchObject({ ok: true }); // shared with A only, to begin with
+    await shareAccepted(engV, sel.projectId, wsA.slug); // shared with A only (offered and accepted), to begin with
   });
   afterAll(() => closeDb());
 

@@ -11,7 +11,7 @@ import { call, makeMember, type TestMember } from "~/test/harness";
 import { fieldsForHead, storeSelection } from "~/test/fieldcheck-fixture";
 import * as syncRoute from "~/routes/field.selections.$id.checks";
 import * as pageRoute from "~/routes/field.selections.$id";
-import { shareProject } from "../projects/shares.server";
+import { shareAccepted } from "../projects/test-kit";
 import type { Viewer } from "../libraries";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density; // IAPWS-IF97 water at 20 °C through the engine (common practice)
@@ -29,7 +29,7 @@ describe("field checks sent from the phone's queue", () => {
     const [cw] = await db().select().from(workspaces).where(eq(workspaces.id, con.workspaceId));
     const engV: Viewer = { userId: eng.userId, workspace: { id: ew.id, name: ew.name, slug: ew.slug, plan: "free" }, role: "engineer" };
     sel = await storeSelection(eng.workspaceId, eng.userId, undefined, "Sync");
-    expect(await shareProject(engV, sel.projectId, cw.slug)).toMatchObject({ ok: true });
+    await shareAccepted(engV, sel.projectId, cw.slug);
     const page = await call(pageRoute.loader as never, { path: `/field/selections/${sel.selectionId}`, cookie: con.cookie, params: { id: String(sel.selectionId) } });
     expect(page.status).toBe(200);
     fingerprint = (page.body as { selection: { fingerprint: string } }).selection.fingerprint;

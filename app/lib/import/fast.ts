@@ -12,7 +12,7 @@ import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
-import { efficiencyPlausible, risesTooMuch } from "./point-rules";
+import { efficiencyPlausible, NPSHR_SMALL, risesTooMuch } from "./point-rules";
 import { looksLikeRating } from "./constant-power";
 import { textCell } from "./text-cells";
 import { minFlowFits } from "./min-flow";
@@ -248,6 +248,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     const flow = num[2], head = num[3], eff = num[4], pow = num[5];
     // the engine's point rules (point-rules.ts): a zero power or NPSHr, or a zero efficiency at flow, needs a message
     if (pow === 0 || num[6] === 0 || (eff === 0 && flow > 0)) return null;
+    if (num[6] < NPSHR_SMALL) return null; // an NPSHr below 0.1 m: a warning (npshr-small); NaN (absent) passes
     if (curPoints === 0) {
       if (!(head > 0)) return null;
       firstHead = lowest = head;

@@ -9,7 +9,7 @@
  * a power or NPSHr that is not above zero. The importer names each of these at its row, so that no
  * curve set it accepts is later left out of the search without a word.
  */
-import { fmtPctExact, fmtPctLimit } from "../../engine/quantityText.ts";
+import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts";
 
 /**
  * Head may rise above the lowest head so far on the curve (running minimum, the engine's rule) by at
@@ -29,6 +29,26 @@ export const RISE_SLACK = 1e-6;
 /** True when `head` rises more than RISE_FRACTION × `first` (× (1 + RISE_SLACK)) above `lowest`. */
 export function risesTooMuch(head: number, lowest: number, first: number): boolean {
   return head - lowest > RISE_FRACTION * first * (1 + RISE_SLACK);
+}
+
+/**
+ * Below this an NPSHr above zero is no figure a maker publishes, m: the smallest NPSHr of a centrifugal pump is some tenths
+ * of a metre (common practice, from memory; the demo libraries' smallest is 0.23 m). Below it the column's unit or the
+ * cell is likely wrong, and an NPSH check against it passes nearly any suction (5e-324 m, a cell taken as written, made
+ * every search of its library throw before the engine took such an NPSHr as none). A warning (`npshr-small`), the point
+ * and the curve kept; the engine's own rule stays "above zero".
+ */
+export const NPSHR_SMALL = 0.1;
+
+/**
+ * Why an NPSHr is warned of, with the value as written, what it reads as and the rule: "NPSHr “0.001” (0.001 m at 20.0 m³/h)
+ * is below 0.1 m: no centrifugal pump's maker publishes so small an NPSHr …".
+ * @param raw the cell as written
+ * @param si the NPSHr read, m
+ * @param flow the row's flow, m³/s (null when unreadable)
+ */
+export function npshrSmallReason(raw: string, si: number, flow: number | null): string {
+  return `NPSHr “${raw.trim()}” (${qtExact("head", si, [NPSHR_SMALL])}${flow != null ? ` at ${qt("flow", flow)}` : ""}) is below ${qtLimit("head", NPSHR_SMALL, [si])}: no centrifugal pump's maker publishes so small an NPSHr (the smallest are some tenths of a metre, common practice), and NPSH judged against it passes nearly any suction — check the column's unit (m or ft) and the cell; the point is kept with it`;
 }
 
 /**

@@ -25,6 +25,7 @@ export type ProblemCode =
   | "run-out"
   | "inconsistent"
   | "power-constant"
+  | "npshr-small"
   | "key-not-given"
   | "min-flow";
 

@@ -25,13 +25,14 @@
  *   block, is a duplicate (duplicate-curve): the first occurrence is kept, the repeat dropped;
  * - a curve set without speed gets a warning (no-speed);
  * - a power the same at every point over 30 % of the flow or more is a warning (power-constant: a motor rating, constant-power.ts);
+ * - an NPSHr above zero and below 0.1 m is a warning at its row (npshr-small, point-rules.ts), the point kept with it;
  * - a maker's minimum flow: one figure per curve, above zero, below its last published flow (min-flow, min-flow.ts).
  * A point with an error is left out of its curve; any error charged to a curve marks it ok: false.
  */
 import type { CurvePoint, CurveSet } from "./curve-schema";
 import type { Cell, LongRow } from "./mapping";
 import { parseNumber, underflows } from "./numbers";
-import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import { efficiencyPlausible, implausibleEfficiencyReason, NPSHR_SMALL, npshrSmallReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
@@ -71,14 +72,7 @@ export function curveKey(model: string, speed: number | null, impellerM: number 
 }
 
 const FIELD_LABEL: Record<NumericField, string> = {
-  speed: "speed",
-  impeller: "impeller diameter",
-  flow: "flow",
-  head: "head",
-  efficiency: "efficiency",
-  power: "power",
-  npshr: "NPSHr",
-  minflow: "maker's minimum flow",
+  speed: "speed", impeller: "impeller diameter", flow: "flow", head: "head", efficiency: "efficiency", power: "power", npshr: "NPSHr", minflow: "maker's minimum flow",
 };
 
 interface Building {
@@ -283,6 +277,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     if (efficiency != null) point.efficiency = efficiency;
     if (power != null && !dropped.includes("power")) point.power = power;
     if (npshr != null && !dropped.includes("npshr")) point.npshr = npshr;
+    if (point.npshr !== undefined && point.npshr < NPSHR_SMALL)
+      add(lr.line, lr.cells.npshr!.column, "npshr-small", npshrSmallReason(lr.cells.npshr!.raw, point.npshr, flow ?? null), key, "warning");
     for (const f of dropped)
       add(lr.line, lr.cells[f]!.column, "zero-dropped",
         `${FIELD_LABEL[f]} 0 at shutoff (zero flow) left out: ${f === "power" ? "shaft power" : "NPSHr"} is above zero on a pump curve; the point is kept without it`, key, "warning");

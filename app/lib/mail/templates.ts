@@ -162,6 +162,26 @@ export function workspaceInviteMail(p: {
   });
 }
 
+/** Tells an admin of a workspace that another workspace offers it a project for field checks, to accept or decline. */
+export function shareOfferMail(p: { adminName?: string | null; offeredBy?: string | null; fromWorkspace: string; toWorkspace: string; projectName: string; link: string }): MailContent {
+  const from = oneLine(p.fromWorkspace);
+  const to = oneLine(p.toWorkspace);
+  const project = oneLine(p.projectName);
+  const who = p.offeredBy && oneLine(p.offeredBy) ? `${oneLine(p.offeredBy)} of “${from}”` : `“${from}”`;
+  return compose({
+    subject: `${from} offers the project ${project} to ${to} on Dutymark`,
+    greeting: hello(p.adminName),
+    before: [
+      para(`${who} offers the project “${project}” to your workspace “${to}”, for field checks.`),
+      para(
+        `If an admin of “${to}” accepts, its members see the project's selections under Field checks, record checks against them and see every check recorded on them. Until then your workspace sees nothing of the project.`,
+      ),
+    ],
+    action: { label: "Accept or decline the offer", link: p.link },
+    after: [para("Not expecting this? Decline it on that page, or leave it: an offer nobody accepts opens nothing.")],
+  });
+}
+
 export type FieldVerdict = "pass" | "marginal" | "fail";
 export const VERDICT_WORDS: Record<FieldVerdict, { short: string; colour: string }> = {
   pass: { short: "within tolerance", colour: BRAND },

@@ -156,7 +156,7 @@ export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoi
   const judgedAt = design ? [design, ...corners] : [...corners];
   const unjudged = [
     ...(design ? [] : [{ at: "design point", why: "no operating point" }]),
-    ...judgedAt.filter((p) => p.marginRatio == null && !(p.available != null && p.available <= 0)).map((p) => ({ at: p.at, why: p.flow == null ? "no operating point" : "no NPSHr at that flow" })),
+    ...judgedAt.filter((p) => p.marginRatio == null && !(p.available != null && p.available <= 0)).map((p) => ({ at: p.at, why: p.flow == null ? "no operating point" : p.required == null ? "no NPSHr at that flow" : "NPSHr there too small to judge against" })),
   ];
   let lowest: NpshPoint | null = null;
   let zero: NpshPoint | null = null;

@@ -1,7 +1,8 @@
 // The editor's load-profile, control and life-cycle fields ↔ the system document's `energy` part.
 // Percent in the form, fractions in the document; hours per year as typed. Pure (browser and server).
-import { countField, decimalField } from "../shared/decimal";
+import { countField, decimalField, decimalMessage, readDecimal } from "../shared/decimal";
 import { DEFAULT_ENERGY_SETTINGS, MAX_LCC_YEARS, MAX_PROFILE_STEPS, MIN_LCC_YEARS, type EnergySettings } from "./energy";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 
 type FormLike = { get(name: string): FormDataEntryValue | null; keys?(): Iterable<string> };
 
@@ -52,18 +53,28 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
     if (past !== null) errors["energy.profileKind"] ??= `At most ${MAX_PROFILE_STEPS} steps: the form has ${MAX_PROFILE_STEPS} rows, and a value was sent for row ${past + 1}. Put the hours into ${MAX_PROFILE_STEPS} steps or fewer.`;
   }
   // A rate left blank is 0 %/year — no escalation, no discounting — as the form's hint says (DutyCycleFieldset.tsx); it
-  // took the example 3 % and 5 % (DEFAULT_ENERGY_SETTINGS), a value nobody typed, into the life-cycle cost.
-  const pct = (key: string, label: string) => {
-    const n = decimalField(f.get(key), key, label, errors);
-    return n == null ? 0 : n / 100;
+  // took the example 3 % and 5 % (DEFAULT_ENERGY_SETTINGS), a value nobody typed, into the life-cycle cost. Outside its
+  // range, or no number, a rate is refused naming the field and the range (`rateRefusal`, the schema's words).
+  const pct = (key: string, r: RateRange) => {
+    const d = readDecimal(f.get(key));
+    if (d.kind === "blank") return 0;
+    if (d.kind === "ambiguous") errors[key] ??= decimalMessage(d, r.label);
+    if (d.kind !== "number") {
+      errors[key] ??= rateRefusal(r, null);
+      return 0;
+    }
+    const x = d.value / 100;
+    if (x < r.min || x > r.max) errors[key] ??= rateRefusal(r, x);
+    return x;
   };
   return {
     control,
     profile,
-    // A count, digits only (shared/decimal.ts countField): "1e1" or "15,0" were read as years. Blank keeps the stored years.
-    years: countField(f.get("energy.years"), "energy.years", "Years", errors, MAX_LCC_YEARS, base.years, MIN_LCC_YEARS) ?? base.years,
-    escalation: pct("energy.escalation", "Tariff escalation"),
-    discountRate: pct("energy.discount", "Discount rate"),
+    // A count, digits only (shared/decimal.ts countField): "1e1" or "15,0" were read as years. Blank is the default 15
+    // years, as the form's hint says — never the years stored before (which a cleared field no longer shows).
+    years: countField(f.get("energy.years"), "energy.years", "Years", errors, MAX_LCC_YEARS, DEFAULT_ENERGY_SETTINGS.years, MIN_LCC_YEARS) ?? base.years,
+    escalation: pct("energy.escalation", ESCALATION_RANGE),
+    discountRate: pct("energy.discount", DISCOUNT_RANGE),
   };
 }
 

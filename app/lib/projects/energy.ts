@@ -1,7 +1,6 @@
-// Load profile, control mode and life-cycle cost of a system's candidates (issue 17, items 3–4).
-// Pure: the server renders with it, the live preview and the selection report read its output.
-// The engine does the physics (app/engine/dutyCycle.ts, lifeCycleCost.ts); this file picks the
-// inputs out of the system document and the evaluated candidate.
+// Load profile, control mode and life-cycle cost of a system's candidates (issue 17, items 3–4). Pure: the server renders
+// with it, the live preview and the selection report read its output. The engine does the physics (app/engine/dutyCycle.ts,
+// lifeCycleCost.ts); this file picks the inputs out of the system document and the evaluated candidate (its maker's minimum flow too).
 import { currencyDigits } from "../shared/money";
 import * as v from "valibot";
 import {
@@ -29,8 +28,11 @@ import {
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
+import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
+import { minFlowOnCycle } from "./verdict-min-flow";
 import type { SystemInput } from "./system-input";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
@@ -40,6 +42,12 @@ export const MAX_PROFILE_STEPS = 8;
 /** Life-cycle years: a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS (the form reads its count to these). */
 export const MIN_LCC_YEARS = 1;
 export const MAX_LCC_YEARS = 50;
+
+/** A life-cycle rate in the schema: the form's words (lcc-ranges.ts) for every refusal. */
+const rate = (r: RateRange) => {
+  const words = (i: { input: unknown }) => rateRefusal(r, typeof i.input === "number" ? i.input : null);
+  return v.pipe(v.number(words), v.check((x) => Number.isFinite(x) && x >= r.min && x <= r.max, words));
+};
 
 export const DutyStepSchema = v.object({
   // 0 %: hours with the system at zero demand, the pump stopped (engine dutyCycle.ts `no-demand`).
@@ -54,8 +62,8 @@ export const EnergySettingsSchema = v.pipe(
     profile: v.nullable(v.pipe(v.array(DutyStepSchema), v.minLength(1, "Give at least one step, or use the common-practice profile."), v.maxLength(MAX_PROFILE_STEPS, `At most ${MAX_PROFILE_STEPS} steps.`))),
     /** Life-cycle cost: years, tariff escalation and discount rate per year (fractions). */
     years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(MIN_LCC_YEARS, `At least ${MIN_LCC_YEARS} year.`), v.maxValue(MAX_LCC_YEARS, `At most ${MAX_LCC_YEARS} years.`)),
-    escalation: v.pipe(num("Tariff escalation"), v.minValue(-0.5, "Escalation at least −50 % a year."), v.maxValue(1, "Escalation at most 100 % a year.")),
-    discountRate: v.pipe(num("Discount rate"), v.minValue(0, "Discount rate at least 0 %."), v.maxValue(1, "Discount rate at most 100 % a year.")),
+    escalation: rate(ESCALATION_RANGE),
+    discountRate: rate(DISCOUNT_RANGE),
   }),
   v.rawCheck(({ dataset, addIssue }) => {
     if (!dataset.typed || !dataset.value.profile) return;
@@ -155,8 +163,6 @@ type EvaluatedLike = {
     /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
     viscosityB?: number | null;
     viscosity?: { status: string } | null;
-    /** The maker's minimum flow as checked (verdict-min-flow.ts): its figure and the speed or trim ratio (absent: none). */
-    minFlow?: { published: number; ratio: number } | null;
   } | null;
 };
 
@@ -227,9 +233,7 @@ export function candidateEnergy(
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
       const common = { systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
-        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined,
-        // One pump's maker's minimum flow on the cycle's curve: as run (speed or trim), at the curve's speed under a drive (stepPor.ts scales it by the step's).
-        makerMinFlow: r.minFlow ? r.minFlow.published * (mode.vfd && c.adjustment.method === "speed" ? 1 : r.minFlow.ratio) : null };
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined, makerMinFlow: minFlowOnCycle(r, mode.vfd, c.adjustment.method) };
       // Pumps in parallel are staged by demand (engine dutyStaging.ts) on one pump's curve: the combined curve's flows and
       // powers shared equally (combinePumps); in series every duty pump runs at every step.
       if (c.adjustment.arrangement === "parallel" && pumps > 1) {
@@ -359,7 +363,9 @@ export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" 
 
 /** The warnings about step `i` of a cycle (motor below 10 % load, …): their messages (`parameter` "profile[i]", engine dutyCycle.ts). */
 export function stepWarnings(cycle: CycleNotes, i: number): string[] {
-  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => w.message);
+  const hours = (cycle.steps?.[i] as { hours?: number } | undefined)?.hours;
+  // A step of 0 h: every note marked as information only (engine `neverRunMarked`; once, also for cycles frozen before the mark).
+  return (cycle.warnings ?? []).filter((w) => w.parameter === `profile[${i}]`).map((w) => neverRunMarked(w.message, hours));
 }
 
 /**

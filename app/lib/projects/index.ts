@@ -5,6 +5,7 @@ export * from "./projects.server";
 export * from "./selections.server";
 export * from "./candidates.server";
 export * from "./shares.server";
+export * from "./share-offers.server";
 export * from "./search.server";
 export * from "./systems-api.server";
 export * from "./selection-export.server";

@@ -3,7 +3,7 @@
 // (common practice, from memory: running there shortens the winding insulation's life), so the Motor row and the CSV say
 // it with the load, the rating and the service factor. The same rule at a duty-cycle step is the engine's own note
 // (dutyCycle.ts `motor-service-factor-step`). Pure; quantities as tokens (quantityText.ts).
-import { fmtPctExact, fmtPctLimit, qtExact, qtLimit } from "~/engine/quantityText";
+import { fmtPctExact, pctLimitWithDecimals, qtExact, qtLimit } from "~/engine/quantityText";
 import { limitCovers } from "~/engine/motor";
 
 /** The candidate's figures as far as the motor goes (SI: W, fractions); a frozen selection's may lack any of them. */
@@ -22,7 +22,6 @@ export function serviceFactorNote(f: MotorFigures): string | null {
   const shaft = load * rating;
   if (limitCovers(rating, shaft) || !limitCovers(limit, shaft)) return null;
   const sf = limit / rating;
-  const sfText = fmtPctLimit(sf);
-  const sfDecimals = (/\.(\d+)/.exec(sfText)?.[1] ?? "").length;
+  const { text: sfText, decimals: sfDecimals } = pctLimitWithDecimals(sf);
   return `runs into its service factor at the operating point: ${fmtPctExact(load, [1, sf], Math.max(1, sfDecimals))} load, one pump's ${qtExact("power", shaft, [rating])} above its ${qtLimit("power", rating, [shaft])} rating, within rating × service factor ${sfText} (${qtLimit("power", limit, [shaft])}); a service factor is margin for occasional overload, not for continuous running (common practice): a motor of the next rating up is the usual choice`;
 }

@@ -5,7 +5,7 @@
 // and a pump that publishes none there is not ruled out by it, yet cavitates there too (common practice: NPSHa ≤ 0 is a
 // cavitation risk whatever the pump). Used by the search page (stats line and note) and the systems search read API
 // (`npshaNote`). Pure.
-import { qtExact } from "~/engine/quantityText";
+import { qtAboveZero, qtExact } from "~/engine/quantityText";
 
 /** NPSHa at the duty at or below zero (m): no NPSHr decides there. */
 const atOrBelowZero = (npshaAtDuty: number | null | undefined): npshaAtDuty is number => npshaAtDuty != null && npshaAtDuty <= 0;
@@ -34,5 +34,5 @@ export function npshaAtDutyNote(npshaAtDuty: number | null | undefined, leftOut:
  */
 export function npshLeftOutText(count: number, npshaAtDuty: number | null | undefined): string {
   if (atOrBelowZero(npshaAtDuty)) return `${count} left out for NPSH at the duty (NPSHa there at or below zero: see below)`;
-  return `${count} left out because their NPSHr at the duty is above the NPSHa there (${npshaAtDuty != null ? qtExact("head", npshaAtDuty, [0]) : "—"})`;
+  return `${count} left out because their NPSHr at the duty is above the NPSHa there (${npshaAtDuty != null ? qtAboveZero("head", npshaAtDuty, []) : "—"})`;
 }

@@ -3,6 +3,7 @@
 // needs more NPSH; the suction still carries the step's whole flow Q. Judged by the rule the candidate's own NPSH is
 // judged by (engine figures.ts `npshStatus`, common practice): NPSHa / NPSHr at least the system's wanted margin ratio;
 // below 1, or NPSHa at or below zero whatever the pump, a cavitation risk. Pure. Units: SI (m³/s, m, Pa).
+import { markNeverRun } from "~/engine/cycleTotals";
 import {
   COUNTED_STEP_STATUSES,
   npshAvailable,
@@ -14,7 +15,7 @@ import {
   type PreparedSystem,
   type PumpCurve,
 } from "~/engine";
-import { fmtNumExact, fmtPct, qt, qtExact } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct, qt, qtAboveZero, qtExact } from "~/engine/quantityText";
 
 /** The rule in words, with the wanted ratio (dimensionless), as each warning states it. */
 export const stagedNpshRule = (wanted: number): string =>
@@ -39,7 +40,9 @@ export type StagedNpshInput = {
  * Warnings at each counted step where fewer than all duty pumps run (`parameter` "profile[i]", shown at the step): a low
  * margin or a cavitation risk with NPSHa, NPSHr, their ratio and the rule; "not judged" where the curve has no NPSHr at
  * one pump's share. Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
- * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met.
+ * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met. A step of
+ * 0 h a year is judged too, its warning marked "(0 h a year: information only)" as every note at such a step
+ * (engine `markNeverRun`); it qualifies no verdict (verdict-staged-npsh.ts).
  */
 export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] {
   const out: StagedNpshWarning[] = [];
@@ -55,7 +58,7 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
     const nr = atFull == null ? null : atFull * speed * speed;
     const na = npshAvailable({ surfacePressure: input.suction.surfacePressure, vaporPressure: fluid.vaporPressure, density: fluid.density, staticSuctionHead: input.suction.staticHead, suctionLoss: suctionLoss(input.prepared, s.flow, "aged").headLoss });
     const where = `NPSH at ${Math.round(s.flowFraction * 100)} % flow, ${k} of ${n} pumps running: each takes ${qt("flow", share)} of the step's ${qt("flow", s.flow)}, further out on its curve than with all ${n} running (${qt("flow", s.flow / n)} each)`;
-    const npsha = `NPSHa ${qtExact("head", na, [0, nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
+    const npsha = `NPSHa ${qtAboveZero("head", na, [nr])} at the step's whole flow through the suction (aged pipe, the lower NPSHa)`;
     const npshr = `NPSHr ${nr == null ? "" : qtExact("head", nr, [na])} of one pump at its share${speed !== 1 ? ` at ${fmtPct(speed)} speed (NPSHr ∝ N², affinity laws)` : ""}`;
     if (!(na > 0)) {
       out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: "cavitation-risk", message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
@@ -71,5 +74,6 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
     const verdict = status === "cavitation-risk" ? "below 1, NPSHa below NPSHr: cavitation risk" : `below the wanted ${wanted}: low NPSH margin`;
     out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: status === "cavitation-risk" ? "cavitation-risk" : "low-margin", message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
   });
+  markNeverRun(input.cycle.steps, out);
   return out;
 }

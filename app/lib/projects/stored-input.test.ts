@@ -23,7 +23,7 @@ describe("readStoredInput", () => {
     expect(problems(doc({ mode: "sideways" }))[0]).toMatchObject({ path: "mode", label: "system kind (open or closed loop)", message: 'Should be "open" or "closed-loop".', stored: '"sideways"' });
     const runs = defaultSystemInput().runs.map((r) => ({ ...r }));
     runs[1].fittings = [{ id: "exit", count: -2 }];
-    expect(problems(doc({ runs }))[0]).toMatchObject({ label: "pipe run 2, fitting 1, count", message: "Should be at least 0.", stored: "-2" }); // FittingUseSchema: minValue(0)
+    expect(problems(doc({ runs }))[0]).toMatchObject({ label: "pipe run 2, fitting 1, count", message: "A fitting's count is a whole number from 0 to 500.", stored: "-2" }); // FittingUseSchema: its own words, with the range
     expect(problems(doc({ duty: "40 m3/h" }))[0]).toMatchObject({ label: "duty point", message: "Should be a group of values.", stored: '"40 m3/h"' });
     const { npshMargin: _n, ...noMargin } = defaultSystemInput();
     expect(problems(JSON.stringify(noMargin))[0]).toMatchObject({ label: "NPSH margin ratio", message: "Missing from the stored document.", stored: null });
@@ -74,6 +74,6 @@ test("editorInput: numbers as stored (out of range too), anything else blank (Na
   expect([unreadable.temperatureC, unreadable.energy.years, unreadable.flowTolerance.plus, unreadable.runs.length, unreadable.duty]).toEqual([NaN, NaN, NaN, 0, null]);
   const fields = problemFieldErrors(problems(JSON.stringify(raw)));
   expect(fields.temperature).toBe("Temperature above ⟦temperature|300⟧? Stored: ⟦temperature|350⟧.");
-  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number. Stored: "DN100".');
+  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number; it takes from ⟦diameter|0.0062⟧ to ⟦diameter|5⟧ (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6). Stored: "DN100".');
   expect(Object.keys(fields)).toContain("staticLow");
 });

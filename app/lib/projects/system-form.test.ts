@@ -10,7 +10,8 @@ const base: Record<string, string> = {
   "run.0.side": "discharge", "run.0.diameter": "4", "run.0.length": "200", dutyFlow: "150", dutyHead: "60", hoursPerYear: "4000", tariffPerKWh: "0.2",
 };
 const read = (o: Record<string, string>, sys = US_UNITS) => {
-  const m = new Map(Object.entries({ ...base, ...o }));
+  // Read in SI, the 4 in bore would be 4 mm, below the smallest bore taken (6.2 mm, system-form-ranges.test.ts): 100 mm.
+  const m = new Map(Object.entries({ ...base, ...(sys === SI_UNITS ? { "run.0.diameter": "100" } : {}), ...o }));
   return readSystemForm({ get: (k: string) => m.get(k) ?? null }, sys);
 };
 
@@ -40,7 +41,7 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
   });
   it("a bad optional field is an error, not its default", () => {
     expect(read({ npshMargin: "abc" }).errors.npshMargin).toBe("The NPSH margin ratio must be a number.");
-    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra K must be a number.");
+    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra ΣK must be a number; it takes from 0 to 10000."); // the field's label and range (run-ranges.ts)
     expect(read({ npshMargin: "" }).input!.npshMargin).toBe(1.1);
   });
   it("load profile and life-cycle fields: an ambiguous number is refused on its field, its pair message does not replace it", () => {

@@ -3,30 +3,35 @@
 import * as v from "valibot";
 import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
 import { qtExact, qtPair } from "~/engine/quantityText";
-import { countField, decimalField } from "../shared/decimal";
-import { labelOf, renderDeep, renderUnits, unitOf, type UnitChoice } from "../shared/units";
+import { countField, decimalField, decimalMessage, readDecimal } from "../shared/decimal";
+import { fmtNum, labelOf, renderDeep, renderUnits, unitOf, type UnitChoice } from "../shared/units";
 import { energyField, readEnergyForm } from "./energy-form";
 import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, storedSizeNote, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
+import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, rangeText, ROUGHNESS_RANGE, SHOWN_PRECISION, type NumberRange } from "./run-ranges";
 
-/** Fittings offered in the editor (ids of app/engine/fittings.ts). */
+/** Fittings offered in the editor: every fitting of app/engine/fittings.ts (system-form-fittings.test.ts), so none is lost on a save. */
 export const EDITOR_FITTINGS = [
   ["elbow-90-standard", "90° elbows"],
   ["elbow-90-long-radius", "90° long bends"],
   ["elbow-45-standard", "45° elbows"],
+  ["return-bend", "180° return bends"],
   ["tee-run", "Tees (run)"],
   ["tee-branch", "Tees (branch)"],
   ["gate-valve-open", "Gate valves"],
   ["ball-valve-open", "Ball valves"],
   ["butterfly-valve-open", "Butterfly valves"],
   ["globe-valve-open", "Globe valves"],
+  ["angle-valve-open", "Angle valves"],
+  ["plug-valve-open", "Plug valves"],
   ["swing-check", "Swing checks"],
+  ["lift-check", "Lift checks"],
   ["foot-valve-strainer", "Foot valve + strainer"],
+  ["foot-valve-poppet", "Foot valve + strainer (poppet)"],
   ["entrance-sharp", "Entrance (sharp)"],
+  ["entrance-projecting", "Entrance (projecting)"],
+  ["entrance-rounded", "Entrance (rounded)"],
   ["exit", "Exit into tank"],
 ] as const;
-
-/** Relative rounding of a value shown in a field at show()'s default five significant digits (half a unit in the fifth digit, with room). */
-const SHOWN_PRECISION = 1e-4;
 
 /** SI → display number, rounded to a sensible number of significant digits for a form field. */
 export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): string {
@@ -39,15 +44,28 @@ export function show(sys: UnitChoice, q: Quantity, si: number, digits = 5): stri
 
 export type FormErrors = Record<string, string>;
 
-function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { optional?: boolean; label: string }): number | null {
+function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { optional?: boolean; label: string; unit?: { sys: UnitChoice; q: Quantity } }): number | null {
   const n = decimalField(f.get(key), key, opts.label, errors, !opts.optional); // the forms' strict reader (shared/decimal.ts)
   if (n === null) return null;
-  // Typed values past the schema's bound would overflow on the way to SI (1e308 kPa): refused here, by field.
-  if (Math.abs(n) > MAX_MAGNITUDE) {
-    errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: check the unit.`;
+  // Typed values past the schema's bound would overflow on the way to SI (1e308 kPa): refused here, by field, with the
+  // bound in the unit typed (the schema's MAX_MAGNITUDE is SI: 10¹² m is 3280839895013 ft).
+  const u = opts.unit;
+  const si = u ? typedToSI(u.q, unitOf(u.sys, u.q), n) : n;
+  if (!(Math.abs(si) <= MAX_MAGNITUDE)) {
+    const bound = u ? `${fmtNum(Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)))} ${labelOf(u.sys, u.q)}` : fmtNum(MAX_MAGNITUDE);
+    errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: the form takes nothing beyond ±${bound}; check the value${u ? " and its unit" : ""}.`;
     return null;
   }
   return n;
+}
+
+/** A typed value in SI; ±Infinity where the conversion overflows a double (1e308 psi), which the engine refuses by throwing. */
+function typedToSI(q: Quantity, unit: string, n: number): number {
+  try {
+    return toSI(q, unit, n);
+  } catch {
+    return n < 0 ? -Infinity : Infinity;
+  }
 }
 
 export type FormLike = { get(name: string): FormDataEntryValue | null };
@@ -82,8 +100,39 @@ export function materialShownFor(r: Pick<PipeRunInput, "pipeTable" | "material">
 export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonly PipeRunInput[] = []): { input: SystemInput | null; name: string; errors: FormErrors } {
   const errors: FormErrors = {};
   const si = (q: Quantity, key: string, label: string, optional = false) => {
-    const n = readNumber(f, key, errors, { label, optional });
+    // Temperature is held to its own range below (an offset unit has no symmetric bound); every other quantity in its unit.
+    const n = readNumber(f, key, errors, { label, optional, unit: q === "temperature" ? undefined : { sys, q } });
     return n == null ? null : toSI(q, unitOf(sys, q), n);
+  };
+  /**
+   * A pipe run's number within its range (run-ranges.ts), SI: every refusal names the field and the range in the unit typed.
+   * Here: blank, not a number, and past the form's magnitude; the range's ends are the schema's, in the same words.
+   */
+  const inRange = (r: NumberRange, key: string, optional = false): number | null => {
+    const d = readDecimal(f.get(key));
+    if (d.kind === "blank") {
+      if (!optional) errors[key] ??= `Enter the ${r.label.toLowerCase()}; it takes ${rangeText(r)}.`;
+      return null;
+    }
+    if (d.kind === "ambiguous") errors[key] ??= decimalMessage(d, r.label);
+    if (d.kind !== "number") {
+      errors[key] ??= outOfRange(r, null);
+      return null;
+    }
+    const x = r.q ? typedToSI(r.q, unitOf(sys, r.q), d.value) : d.value;
+    if (!(Math.abs(x) <= MAX_MAGNITUDE)) {
+      errors[key] ??= outOfRange(r, d.value < 0 ? -Number.MAX_VALUE : Number.MAX_VALUE); // too low or high, not "not a number"
+      return null;
+    }
+    return x;
+  };
+  // An entered bore from the catalogue's smallest (run-ranges.ts boreTaken; the schema's own rule is only above zero).
+  const bore = (key: string, d: number | null): number | null => {
+    if (d != null && d < BORE_RANGE.max && !boreTaken(d)) {
+      errors[key] ??= outOfRange(BORE_RANGE, d);
+      return null;
+    }
+    return d;
   };
   const name = (f.get("name") ?? "").toString().trim().slice(0, 160);
   if (!name) errors.name = "Give the system a name.";
@@ -127,13 +176,13 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
         // system warning's words): kept as stored, on the bore in the inner diameter field (the stored one where the field
         // still shows it). The stored document decides, never a posted field; any other unlisted size is refused.
         const kept = storedUnlisted(storedRuns[i], pipeTable, nominal);
-        if (kept) diameter = storedBoreOr(kept.diameter, si("diameter", `${p}diameter`, "the inner diameter"));
+        if (kept) diameter = bore(`${p}diameter`, storedBoreOr(kept.diameter, inRange(BORE_RANGE, `${p}diameter`)));
         else {
           errors[`${p}nominal`] = "Pick a size from this pipe table.";
           sized = false;
         }
       }
-    } else diameter = si("diameter", `${p}diameter`, "the inner diameter");
+    } else diameter = bore(`${p}diameter`, inRange(BORE_RANGE, `${p}diameter`));
     const mat = materialForTable(f.get(`${p}material`)?.toString() ?? null, f.get(`${p}materialShown`)?.toString() ?? null, pipeTable);
     let m: ReturnType<typeof materialOf> | null = null;
     try {
@@ -141,8 +190,8 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
     } catch {
       errors[`${p}material`] = "Pick a material.";
     }
-    const typedAged = si("roughness", `${p}agedRoughness`, "the aged roughness", true);
-    const roughness = si("roughness", `${p}roughness`, "the roughness", true) ?? m?.roughnessNew ?? 0;
+    const typedAged = inRange(AGED_ROUGHNESS_RANGE, `${p}agedRoughness`, true);
+    const roughness = inRange(ROUGHNESS_RANGE, `${p}roughness`, true) ?? m?.roughnessNew ?? 0;
     let agedRoughness = typedAged ?? m?.roughnessAged ?? roughness;
     // Equal at the five significant digits a field shows (show()): an aged value stored equal to the new one comes back
     // a hair below it through other units (0.26 mm as 0.010236 in), and is read as equal.
@@ -169,9 +218,9 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
       material: mat,
       roughness,
       agedRoughness,
-      length: si("length", `${p}length`, "the length") ?? 0,
+      length: inRange(LENGTH_RANGE, `${p}length`) ?? 0,
       fittings,
-      extraK: readNumber(f, `${p}extraK`, errors, { label: "extra K", optional: true }) ?? 0,
+      extraK: inRange(EXTRA_K_RANGE, `${p}extraK`, true) ?? 0,
     });
   }
   const add = f.get("addRun");

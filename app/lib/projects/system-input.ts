@@ -7,6 +7,7 @@ import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
 import { qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
+import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, ROUGHNESS_RANGE, type NumberRange } from "./run-ranges";
 
 // Largest magnitude of any number in a system, SI, as of any number typed (shared/decimal.ts).
 export { MAX_MAGNITUDE };
@@ -14,15 +15,29 @@ const num = (label: string) =>
   v.pipe(v.number(`${label} must be a number.`), v.finite(`${label} must be a finite number.`), v.check((x) => Math.abs(x) <= MAX_MAGNITUDE, `${label} is far outside any pump system: check the unit.`));
 const nonNeg = (label: string) => v.pipe(num(label), v.minValue(0, `${label} cannot be negative.`));
 const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be greater than zero.`));
+/**
+ * A number within `r` (above zero instead of from `r.min` where `aboveZero`), every refusal in the words naming the field and
+ * its range (run-ranges.ts). Value actions, not `check`: the editor sets aside a run's checks against a bore it could not read.
+ */
+const ranged = (r: NumberRange, aboveZero = false) => {
+  const words = (i: { input: unknown }) => outOfRange(r, typeof i.input === "number" ? i.input : null);
+  return v.pipe(v.number(words), v.finite(words), aboveZero ? v.gtValue(0, words) : v.minValue(r.min, words), v.maxValue(r.max, words));
+};
+/** A text field of a run: one message for the wrong type and for the length, with the limit. */
+const text = (max: number, words: string) => v.pipe(v.string(words), v.maxLength(max, words));
 
 /** Most fittings of one kind in one run, and most pipe runs in a system (the editor's fields read up to these). */
 export const MAX_FITTING_COUNT = 500;
 export const MAX_RUNS = 40;
 
-export const FittingUseSchema = v.object({
-  id: v.pipe(v.string(), v.maxLength(60)),
-  count: v.pipe(v.number(), v.integer("Fitting counts are whole numbers."), v.minValue(0), v.maxValue(MAX_FITTING_COUNT)),
-});
+const FITTING_COUNT_WORDS = `A fitting's count is a whole number from 0 to ${MAX_FITTING_COUNT}.`;
+export const FittingUseSchema = v.object(
+  {
+    id: text(60, "A fitting's id is text of at most 60 characters: a fitting of the catalogue."),
+    count: v.pipe(v.number(FITTING_COUNT_WORDS), v.integer(FITTING_COUNT_WORDS), v.minValue(0, FITTING_COUNT_WORDS), v.maxValue(MAX_FITTING_COUNT, FITTING_COUNT_WORDS)),
+  },
+  "A fitting is an object with id and count.",
+);
 
 /**
  * Roughness (new or aged) must stay below half the run's inner diameter (the engine's ROUGHNESS_MAX_OF_DIAMETER, system.ts):
@@ -51,24 +66,27 @@ const belowWholeDiameter = (key: "roughness" | "agedRoughness", label: string) =
   );
 type PipeRunShape = v.InferOutput<typeof PipeRunObject>;
 
-const PipeRunObject = v.object({
-  side: v.picklist(["suction", "discharge"]),
-  name: v.pipe(v.string(), v.maxLength(80)),
-  /** Catalogue table and nominal size; empty when the inner diameter is typed. */
-  pipeTable: v.pipe(v.string(), v.maxLength(40)),
-  nominal: v.pipe(v.string(), v.maxLength(20)),
-  /** Inner diameter, m. */
-  diameter: v.pipe(pos("Inner diameter"), v.maxValue(5, `Inner diameter above ${qt("diameter", 5)}? Check the unit.`)),
-  material: v.pipe(v.string(), v.maxLength(40)),
-  /** Absolute roughness new and aged, m. */
-  roughness: v.pipe(nonNeg("Roughness"), v.maxValue(0.05, `Roughness above ${qt("roughness", 0.05)}? Check the unit.`)),
-  agedRoughness: v.pipe(nonNeg("Aged roughness"), v.maxValue(0.05, `Aged roughness above ${qt("roughness", 0.05)}? Check the unit.`)),
-  /** Length, m. */
-  length: v.pipe(nonNeg("Length"), v.maxValue(1e6, "Length above 1000 km? Check the unit.")),
-  fittings: v.pipe(v.array(FittingUseSchema), v.maxLength(40)),
-  /** Extra ΣK (dimensionless): entrance, exit, equipment given as K. */
-  extraK: v.pipe(nonNeg("Extra K"), v.maxValue(1e4)),
-});
+const PipeRunObject = v.object(
+  {
+    side: v.picklist(["suction", "discharge"], 'A run\'s side is "suction" or "discharge".'),
+    name: text(80, "A run's name is text of at most 80 characters."),
+    /** Catalogue table and nominal size; empty when the inner diameter is typed. */
+    pipeTable: text(40, 'Pipe table is text of at most 40 characters: a table of the catalogue, or "" for a typed inner diameter.'),
+    nominal: text(20, 'Nominal size is text of at most 20 characters: a size of the pipe table, or "" for a typed inner diameter.'),
+    /** Inner diameter, m: above 0 as stored; an entered run from the catalogue's smallest bore (`SystemInputEntrySchema`). */
+    diameter: ranged(BORE_RANGE, true),
+    material: text(40, "Material is text of at most 40 characters: a material of the catalogue."),
+    /** Absolute roughness new and aged, m. */
+    roughness: ranged(ROUGHNESS_RANGE),
+    agedRoughness: ranged(AGED_ROUGHNESS_RANGE),
+    /** Length, m. */
+    length: ranged(LENGTH_RANGE),
+    fittings: v.pipe(v.array(FittingUseSchema, "Fittings are a list of { id, count }."), v.maxLength(40, "At most 40 kinds of fitting in a run.")),
+    /** Extra ΣK (dimensionless): entrance, exit, equipment given as K. */
+    extraK: ranged(EXTRA_K_RANGE),
+  },
+  "A pipe run is an object with side, name, pipeTable, nominal, diameter, material, roughness, agedRoughness, length, fittings and extraK.",
+);
 
 export const PipeRunSchema = v.pipe(PipeRunObject, belowDiameter("roughness", "Roughness"), belowDiameter("agedRoughness", "Aged roughness"));
 /** A frozen selection's run: the rules it was frozen under (roughness below the whole bore), never a rule added since. */
@@ -149,6 +167,22 @@ export const SystemInputEntrySchema = v.pipe(
     ),
     ["staticHigh"],
   ),
+  // Each run's bore from the catalogue's smallest (run-ranges.ts `boreTaken`): the stored rule is only above zero.
+  v.rawCheck(({ dataset, addIssue }) => {
+    if (!dataset.typed) return;
+    const runs = dataset.value.runs;
+    runs.forEach((r, i) => {
+      if (boreTaken(r.diameter)) return;
+      addIssue({
+        message: outOfRange(BORE_RANGE, r.diameter),
+        path: [
+          { type: "object", origin: "value", input: dataset.value, key: "runs", value: runs },
+          { type: "array", origin: "value", input: runs, key: i, value: r },
+          { type: "object", origin: "value", input: r, key: "diameter", value: r.diameter },
+        ],
+      });
+    });
+  }),
 );
 
 /**

@@ -2,7 +2,8 @@
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
 // services it calls (getSystem → 404 for another workspace's system, 409 for stored inputs that fail the schema).
 import type { Viewer } from "../libraries";
-import { systemWorkbench } from "./projects.server";
+import { storedRuns, systemWorkbench } from "./projects.server";
+import { readPreviewBody, type PreviewProblem } from "./preview-input";
 import { SEARCH_SHOWN, searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchApiView, workbenchView } from "./workbench-view";
 import { searchResultView } from "./search-view";
@@ -20,6 +21,17 @@ export async function systemReadView(viewer: Viewer, systemId: number) {
     input: bench.system.input,
     ...view,
   };
+}
+
+/**
+ * POST …/preview: the workbench view of unsaved inputs (nothing stored), or why the body is refused (preview-input.ts:
+ * the entry rules and the catalogue, against the stored runs). The system is looked up first: another workspace's is a
+ * 404 whatever the body (its stored runs open no size to this caller).
+ */
+export async function systemPreviewView(viewer: Viewer, systemId: number, body: unknown): Promise<{ ok: true; view: ReturnType<typeof workbenchApiView> } | { ok: false; errors: PreviewProblem[]; count: number }> {
+  const read = readPreviewBody(body, await storedRuns(viewer, systemId));
+  if (!read.ok) return read;
+  return { ok: true, view: workbenchApiView(workbenchView(await systemWorkbench(viewer, systemId, read.input))) };
 }
 
 /**

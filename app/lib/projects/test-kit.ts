@@ -3,15 +3,17 @@
 // the paid plan with a library of part of a demo CSV (invented data, fixtures/demo/) and one system
 // whose duty lies among its curves; CSV text imported through the same path as the mapping page.
 import { readFileSync } from "node:fs";
-import { eq } from "drizzle-orm";
+import { and, eq, or } from "drizzle-orm";
 import { db } from "@db/client.server";
-import { workspaces } from "@db/schema";
+import { projectShares, workspaces } from "@db/schema";
 import { analyseStored, createLibrary, getUpload, importUpload, storeUpload, updateLibrary, type Viewer } from "../libraries";
 import { workspacesOf } from "../auth/guards.server";
 import type { Role } from "../auth/permissions";
 import { makeMember } from "~/test/harness";
 import { createProject, createSystem } from "./projects.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
+import { shareProject } from "./shares.server";
+import { decideShare } from "./share-offers.server";
 
 export const M3H = 1 / 3600;
 
@@ -66,4 +68,20 @@ export async function searchFixture(o: { demoFile: string; library: string; proj
   input.runs = input.runs.map((r) => ({ ...r, diameter: 0.15 }));
   const systemId = await createSystem(v, await createProject(v, { name: o.project, site: "", description: "" }), "Main", input);
   return { userId: m.userId, viewer: v, libId, systemId, csv };
+}
+
+/**
+ * The project offered to the workspace of that name or slug (`shareProject`) and the offer accepted by an admin made
+ * there for it (`decideShare`): a share as the contractor's tests need it, open. The share's id and that admin.
+ */
+export async function shareAccepted(owner: Viewer, projectId: number, nameOrSlug: string) {
+  const offered = await shareProject(owner, projectId, nameOrSlug);
+  if (!offered.ok) throw new Error(offered.error);
+  const [w] = await db().select().from(workspaces).where(or(eq(workspaces.slug, nameOrSlug.toLowerCase()), eq(workspaces.name, nameOrSlug)));
+  const [share] = await db().select({ id: projectShares.id }).from(projectShares).where(and(eq(projectShares.projectId, projectId), eq(projectShares.workspaceId, w.id)));
+  const admin = await makeMember("admin", w.id);
+  const adminViewer: Viewer = { userId: admin.userId, workspace: { id: w.id, name: w.name, slug: w.slug, plan: w.plan }, role: "admin" };
+  const answer = await decideShare(adminViewer, share.id, "accept");
+  if (!answer.ok) throw new Error(answer.error);
+  return { shareId: share.id, admin, adminViewer };
 }

@@ -65,6 +65,19 @@ export function readMinFlowCheck(x: unknown): MinFlowCheck | null {
   return nums && typeof c.below === "boolean" ? (x as MinFlowCheck) : null;
 }
 
+/**
+ * One pump's maker's minimum flow on the curve a candidate's duty cycle runs on (energy.ts), m³/s, or null without one: as
+ * run at a set speed or trim, at the curve's own speed under a drive (the cycle's speeds are fractions of it, and stepPor.ts
+ * scales the figure by each step's).
+ * @param result the candidate's evaluation (its `minFlow` as checked; absent in selections frozen before)
+ * @param vfd whether the cycle runs on a drive
+ * @param method how the candidate is adjusted
+ */
+export function minFlowOnCycle(result: object, vfd: boolean, method: "none" | "speed" | "trim"): number | null {
+  const c = readMinFlowCheck((result as { minFlow?: unknown }).minFlow);
+  return c ? c.published * (vfd && method === "speed" ? 1 : c.ratio) : null;
+}
+
 /** The maker's figure as the candidate runs it, in words: "12.0 m³/h", or "9.60 m³/h (12.0 m³/h at the curve's speed × 80.0 % speed, affinity laws)". */
 export function minFlowAsRun(c: MinFlowCheck, against: readonly number[] = []): string {
   const at = qtLimit("flow", c.atPump, against);

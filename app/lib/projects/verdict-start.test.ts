@@ -26,14 +26,14 @@ describe("two A1 pumps in parallel, 36–39 m static, duty 54 m³/h at 42 m", ()
     expect(note(e)).toBe("but started one after another (duty/standby staging) the duty is not met: at most lift, aged pipe pump 2 of 2 cannot open its check valve against the 42.9 m pump 1 holds (above its shut-off head 40.0 m), so only 1 delivers, 49.0 m³/h, below the duty 54.0 m³/h; the verdict assumes the 2 started together");
   });
   it("the chart's label says it too", () => {
-    expect(label(e)).toBe("P (2 in parallel) — meets the duty, but not met if started one after another"); // old code: "P (2 in parallel) — meets the duty"
+    expect(label(e)).toBe("P (2 in parallel) — meets the duty, but NPSH not checked, but not met if started one after another"); // old code: "P (2 in parallel) — meets the duty"; A1 publishes no NPSHr (decision "npshzero")
   });
   it("the flip on flow: 36–37 m static, pump 2 still cannot start but pump 1 alone gives 54.7 m³/h ≥ 54: nothing against its verdict", () => {
     const ok = at(36, 37, 54);
     expect(ok.warnings.join(" ")).toMatch(/cannot open its check valve/); // control: pump 2 still dead-heads (the Notes say so)
     expect(note(ok)).toBeNull();
     expect(ok.verdict?.status).toBe("oversized"); // control: two together give more than 110 % of the duty at 37 m
-    expect(label(ok)).toBe("P (2 in parallel) — oversized");
+    expect(label(ok)).toBe("P (2 in parallel) — oversized, and NPSH not checked"); // nothing of the start; A1 publishes no NPSHr (decision "npshzero")
   });
   it("a minus tolerance of 10 %: 49.0 m³/h is above 54 × 0.9 = 48.6 m³/h, nothing against the verdict", () => {
     expect(note(at(36, 39, 54, { flowTolerance: { minus: 0.1, plus: 0.1 } }))).toBeNull();

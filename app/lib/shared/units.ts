@@ -6,7 +6,7 @@
  * the engine: `⟦flow|0.0111⟧`) live here too, so every page, report and e-mail follows the choice.
  */
 import { fromSI, toSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "~/engine";
-import { fmtQuantity, fmtQuantityExact, renderQuantities } from "~/engine/quantityText";
+import { fmtQuantity, fmtQuantityAboveZero, fmtQuantityExact, renderQuantities } from "~/engine/quantityText";
 
 export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "./format";
 
@@ -83,6 +83,8 @@ export const fromChosen = (u: UnitChoice, q: Quantity, value: number): number =>
 export const fmtQ = fmtQuantity;
 /** An SI value shown beside values it is compared with (SI), with the decimals it needs not to read as one of them in the chosen unit. */
 export const fmtQExact = fmtQuantityExact;
+/** A reading judged by its side of zero (NPSHa): "< 0.001 m" above zero and below 0.001 in the unit shown, else as fmtQExact read apart from zero. */
+export const fmtQAboveZero = fmtQuantityAboveZero;
 
 export const fmtFlow = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "flow", si);
 export const fmtHead = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "head", si);

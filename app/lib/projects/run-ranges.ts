@@ -1,0 +1,57 @@
+// The ranges a pipe run's numbers take, and the one way a refusal of one is worded: the field, then the range it takes in
+// the unit it is read in (quantity tokens, rendered by whoever shows the words: the editor in the user's units, the API in
+// the caller's). Pure: the schema (system-input.ts), the editor's form (system-form.ts) and the preview API say the same.
+import { PIPE_TABLES, type Quantity } from "~/engine";
+import { qtLimit } from "~/engine/quantityText";
+import { MAX_MAGNITUDE } from "../shared/decimal";
+
+/** A number's range: its field's label, quantity (null: a plain number), ends in SI, and why an end is where it is. */
+export type NumberRange = { label: string; q: Quantity | null; min: number; max: number; why?: string };
+
+/** Relative rounding of a value shown in a field at five significant digits (system-form.ts `show`, with room). */
+export const SHOWN_PRECISION = 1e-4;
+
+// The smallest inner diameter any pipe table of the catalogue lists (engine pipes.ts, pipesDN.ts; EN 10255 medium DN6 today).
+const smallest = PIPE_TABLES.flatMap((t) => t.sizes.map((s) => ({ table: t.name, nominal: s.nominal, bore: s.innerDiameter }))).reduce((a, b) => (b.bore < a.bore ? b : a));
+
+/** Smallest inner diameter an entered run takes, m: the catalogue's smallest bore (a fitting's fT is taken at 1 mm at the least, fittings.ts). */
+export const MIN_BORE = smallest.bore;
+/** Largest inner diameter of any run, m (our rule: past it, a unit was mistaken). */
+export const MAX_BORE = 5;
+/** Longest run, m (1000 km; our rule). */
+export const MAX_RUN_LENGTH = 1e6;
+/** Largest absolute roughness, new or aged, m (50 mm; our rule). */
+export const MAX_ROUGHNESS = 0.05;
+/** Largest extra ΣK of a run (dimensionless; our rule). */
+export const MAX_EXTRA_K = 1e4;
+
+export const BORE_RANGE: NumberRange = { label: "Inner diameter", q: "diameter", min: MIN_BORE, max: MAX_BORE, why: `the smallest bore a pipe table of the catalogue lists: ${smallest.table} ${smallest.nominal}` };
+export const LENGTH_RANGE: NumberRange = { label: "Length", q: "length", min: 0, max: MAX_RUN_LENGTH };
+export const ROUGHNESS_RANGE: NumberRange = { label: "Roughness", q: "roughness", min: 0, max: MAX_ROUGHNESS };
+export const AGED_ROUGHNESS_RANGE: NumberRange = { ...ROUGHNESS_RANGE, label: "Aged roughness" };
+export const EXTRA_K_RANGE: NumberRange = { label: "Extra ΣK", q: null, min: 0, max: MAX_EXTRA_K };
+
+/**
+ * Whether an entered run's bore is taken: from the catalogue's smallest bore, less the rounding of a field showing it (a
+ * stored 6.2 mm shown as 0.24409 in reads back a hair below), to MAX_BORE. The editor and the preview API hold to it;
+ * a stored document is read without its lower end (a system saved before it still computes, with the engine's warnings).
+ */
+export const boreTaken = (d: number) => d >= MIN_BORE * (1 - SHOWN_PRECISION) && d <= MAX_BORE;
+
+const plain = (x: number) => String(x).replace("-", "−");
+
+/** "from A to B (why)": the ends as tokens, each told apart from `value` where it would read the same. */
+export function rangeText(r: NumberRange, value?: number | null): string {
+  const against = value != null && Number.isFinite(value) && Math.abs(value) <= MAX_MAGNITUDE ? [value] : [];
+  const end = (x: number) => (r.q && x !== 0 ? qtLimit(r.q, x, against) : plain(x)); // zero needs no unit: "from 0 to 50.0 mm"
+  return `from ${end(r.min)} to ${end(r.max)}${r.why ? ` (${r.why})` : ""}`;
+}
+
+/**
+ * The refusal of a value outside `r` (null or not finite: not a number), naming the field and the range it takes:
+ * "Length is too high: it takes from 0 m to 1000000 m; check the value and its unit."
+ */
+export function outOfRange(r: NumberRange, value: number | null): string {
+  if (value === null || !Number.isFinite(value)) return `${r.label} must be a number; it takes ${rangeText(r)}.`;
+  return `${r.label} is too ${value < r.min ? "low" : "high"}: it takes ${rangeText(r, value)}; check the value${r.q ? " and its unit" : ""}.`;
+}
