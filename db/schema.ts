@@ -338,6 +338,7 @@ export const curveSets = mysqlTable(
     headMax: double("head_max").notNull(), // m
     headMin: double("head_min").notNull(),
     pointCount: int("point_count").notNull(),
+    minFlow: double("min_flow"), // m³/s: the maker's minimum continuous flow, null when the upload gave none
   },
   (t) => [index("curve_sets_rev_idx").on(t.revisionId), index("curve_sets_model_idx").on(t.modelId)],
 );

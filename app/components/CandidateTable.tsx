@@ -10,7 +10,8 @@ import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
 import { amountText, moneyText } from "~/components/energy-numbers";
 import { serviceFactorNote } from "~/lib/projects/motor-service-factor";
-import { adjustmentText, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
+import { adjustmentText, minFlowNoteOf, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
+import { minFlowAsRun, MIN_FLOW_RULE, readMinFlowCheck } from "~/lib/projects/verdict-min-flow";
 import { perPumpPowerText, totalPowerText } from "./power-text";
 
 type Cand = WorkbenchView["candidates"][number];
@@ -58,6 +59,30 @@ function overloadText(f: NonNullable<NonNullable<Cand["result"]>["figures"]>): s
   return f.nonOverloading == null ? "overload not judged (the curve's power does not reach its end)" : yes(f.nonOverloading, "non-overloading", "can overload");
 }
 
+/**
+ * The maker's minimum flow as the candidate runs it and the duty each running pump takes beside it (verdict-min-flow.ts), in
+ * the reader's units: "none recorded" where the curve set has none; "—" for a selection frozen before it was kept. The row is
+ * shown where some candidate's curve set records a figure.
+ */
+function minFlowCell(c: Cand, units: UnitChoice): React.ReactNode {
+  const r = c.result;
+  if (!r || r.minFlow === undefined) return "—";
+  const check = readMinFlowCheck(r.minFlow);
+  if (!check) return <span className="text-slate-600">none recorded for this curve</span>;
+  const per = check.dutyPerPump;
+  const share = check.running > 1 ? " per running pump" : "";
+  return (
+    <span data-testid={`min-flow-${c.id}`} title={MIN_FLOW_RULE}>
+      {renderUnits(minFlowAsRun(check, per != null ? [per] : []), units)}
+      {per != null ? (
+        <span className={check.below ? "font-semibold text-fail" : ""}>
+          {" · duty"}{share} {fmtQExact(units, "flow", per, [check.atPump])}: {check.below ? "below it" : "at or above it"}
+        </span>
+      ) : null}
+    </span>
+  );
+}
+
 /** " × 8000 h/yr": the hours the operating point's energy and cost count, the system's operating hours, the same for every candidate ("" in selections frozen before they were kept). */
 const opHours = (view: WorkbenchView) => {
   const h = view.candidates.find((c) => c.result?.figures?.motor?.hoursPerYear != null)?.result?.figures?.motor.hoursPerYear;
@@ -70,7 +95,7 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
-    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} stagedNpshNote={stagedNpshNoteOf(c.result, c.energy, unitSystem)} />)],
+    ["Verdict", (c) => (c.error ? <span className="text-fail">{c.error}</span> : c.result && c.result.verdict === undefined ? <span className="text-slate-600" data-testid={`verdict-${c.id}`} data-status="not-judged">{NOT_JUDGED}</span> : <VerdictView verdict={c.result?.verdict} testId={`verdict-${c.id}`} npshNote={npshNoteOf(c.result, unitSystem)} npshRule={c.result?.npsh?.rule} startNote={startNoteOf(c.result, unitSystem)} motorNote={motorNoteOf(c.result, unitSystem)} stagedNpshNote={stagedNpshNoteOf(c.result, c.energy, unitSystem)} minFlowNote={minFlowNoteOf(c.result, unitSystem)} />)],
     ["Operating flow (design curve)", (c) => fmtFlow(unitSystem, c.result?.operating?.flow)],
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
     ["Crossing", (c) => (c.error ? "—" : c.result?.operating?.flow === 0 ? <span className="text-duty-ink">{deadHeadText(unitSystem, c.result.operating.head)}</span> : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
@@ -100,6 +125,8 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     }],
     ["Efficiency", (c) => fmtPct(c.result?.figures?.efficiency)],
     ["Shaft power", (c) => totalPowerText(unitSystem, c.result?.figures?.shaftPower, basisOf(c))],
+    // Only where some candidate's curve set records the maker's figure (the table and the printed report stay as they were elsewhere).
+    ...(view.candidates.some((c) => readMinFlowCheck(c.result?.minFlow)) ? [["Maker's minimum flow", (c: Cand) => minFlowCell(c, unitSystem)] as [string, (c: Cand) => React.ReactNode]] : []),
     ["Position vs BEP", (c) => (c.result?.figures?.bepRatio != null ? bepPositionText(c.result.figures.bepRatio, c.result.figures.inPor) : "—")],
     ["NPSHa / NPSHr (design curve)", (c) => (c.result?.figures?.npshAvailable != null ? npshPairText(unitSystem, c.result.figures.npshAvailable, c.result.figures.npshRequired) : "—")],
     // NPSHa at or below zero: its ratio to NPSHr means nothing; NPSHa is shown.

@@ -1,6 +1,7 @@
 // What a duty cycle says about its steps, as the system page's step table and the selection report show it: a step
 // that is not met or not computed says so with the engine's message (its rule and numbers), and the engine's warnings
-// are shown at the step they name (`parameter` "profile[i]", app/engine/dutyCycle.ts) or under the table. Pure.
+// are shown at the step they name (`parameter` "profile[i]", app/engine/dutyCycle.ts) or under the table. A step below the
+// maker's minimum continuous flow (engine stepPor.ts `step-below-maker-min-flow`) is a line of its own, in full. Pure.
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { NEVER_RUN_NOTE, STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
 import { fmtPctExact } from "~/engine/quantityText";
@@ -33,6 +34,7 @@ export function cycleNoteLines(cycle: Cycle): string[] {
   const lines: string[] = [];
   const offBep: string[] = [];
   let belowMin = false;
+  let maker = "unsaid" as "recorded" | "none" | "unsaid"; // the maker's minimum flow beside a note below 50 % (cycles frozen before: unsaid)
   cycle.steps.forEach((s, i) => {
     if (s.status !== "ok") lines.push(`Step at ${stepName(s)}: ${stepVerdict(s)} — ${s.message}.`);
     for (const w of (cycle.warnings ?? []).filter((x) => x.parameter === `profile[${i}]`)) {
@@ -41,12 +43,18 @@ export function cycleNoteLines(cycle: Cycle): string[] {
       else {
         const low = ratio < STEP_MIN_FLOW_FRACTION;
         belowMin ||= low;
+        const m = (w as { makerMinFlow?: unknown }).makerMinFlow;
+        if (low && m !== undefined) maker = typeof m === "number" ? "recorded" : "none";
         offBep.push(`${stepName(s)} at ${fmtPctExact(ratio, [0.7, 1.2, STEP_MIN_FLOW_FRACTION], 0)}${low ? "*" : ""}${s.hours === 0 ? ` ${NEVER_RUN_NOTE}` : ""}`);
       }
     }
   });
   if (offBep.length) {
-    const worst = belowMin ? ` (* below ${fmtNum(STEP_MIN_FLOW_FRACTION * 100, 0)} %, a common lower bound for continuous running, from memory — check the maker's minimum flow: recirculation, heating, vibration)` : "";
+    const makerWords =
+      maker === "recorded" ? "; at or above the maker's minimum continuous flow recorded for this curve"
+      : maker === "none" ? "; no maker's minimum flow is recorded for this curve — check the maker's data sheet"
+      : " — check the maker's minimum flow";
+    const worst = belowMin ? ` (* below ${fmtNum(STEP_MIN_FLOW_FRACTION * 100, 0)} %, a common lower bound for continuous running, from memory${makerWords}: recirculation, heating, vibration)` : "";
     lines.push(`Steps outside the ${STEP_POR_RULE}, each pump's flow as a share of its BEP flow at its speed: ${offBep.join("; ")}${worst}. Notes, not failures.`);
   }
   for (const w of cycleWarnings(cycle)) lines.push(`${w.charAt(0).toUpperCase()}${w.slice(1)}.`);

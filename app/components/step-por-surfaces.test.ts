@@ -45,7 +45,7 @@ describe("one pump, fixed speed: the note at its step on every surface", () => {
   it("25 % (25 % of BEP flow): the minimum-flow note; 69 %: outside the POR; 71 % and 100 %: nothing", () => {
     expect(e.cycle!.steps.map((s) => s.status)).toEqual(["ok", "ok", "ok", "ok"]);
     const p = panel(e);
-    expect(p).toMatch(/▲ at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: below 50 % of BEP flow, a common lower bound for continuous running .*check the maker's minimum flow\), and outside the preferred operating region 70–120 % of BEP flow \(ANSI\/HI 9\.6\.3, from memory\)/);
+    expect(p).toMatch(/▲ at 25 % flow the pump runs at 9\.00 m³\/h, 25 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: below 50 % of BEP flow, a common lower bound for continuous running .*no maker's minimum flow is recorded for this curve \(check the maker's data sheet\); and outside the preferred operating region 70–120 % of BEP flow \(ANSI\/HI 9\.6\.3, from memory\)/);
     expect(p).toMatch(/▲ at 69 % flow the pump runs at [\d.]+ m³\/h, 69 % of its BEP flow, 36\.0 m³\/h, for 2000 h a year: left of \(below\) the preferred operating region/);
     expect(p).not.toMatch(/at (71|100) % flow the pump runs at/);
     // The printed report's notes (no step table on paper): the steps off the BEP on one line, the rule said once, so a
@@ -54,8 +54,8 @@ describe("one pump, fixed speed: the note at its step on every surface", () => {
     const lines = cycleNoteLines(e.cycle!);
     expect(lines).toEqual([
       "Steps outside the preferred operating region 70–120 % of BEP flow (ANSI/HI 9.6.3, from memory), each pump's flow as a share of its BEP flow at its speed: " +
-        "25 % flow, 2000 h at 25 %*; 69 % flow, 2000 h at 69 % (* below 50 %, a common lower bound for continuous running, from memory — check the maker's " +
-        "minimum flow: recirculation, heating, vibration). Notes, not failures.",
+        "25 % flow, 2000 h at 25 %*; 69 % flow, 2000 h at 69 % (* below 50 %, a common lower bound for continuous running, from memory; no maker's minimum flow is " +
+        "recorded for this curve — check the maker's data sheet: recirculation, heating, vibration). Notes, not failures.",
     ]);
     const printed = report(e);
     expect(printed).toContain(lines[0]);

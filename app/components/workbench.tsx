@@ -13,6 +13,7 @@ import { verdictNpshNote, verdictNpshShort } from "~/lib/projects/verdict-npsh";
 import { STAGED_START_RULE, verdictStartNote, verdictStartShort } from "~/lib/projects/verdict-start";
 import { MOTOR_RULE, verdictMotorNote, verdictMotorShort } from "~/lib/projects/verdict-motor";
 import { verdictStagedNpshNote, verdictStagedNpshShort } from "~/lib/projects/verdict-staged-npsh";
+import { MIN_FLOW_RULE, verdictMinFlowNote, verdictMinFlowShort } from "~/lib/projects/verdict-min-flow";
 
 /** What NPSH says against a candidate's verdict, in the reader's units, for `VerdictView`'s `npshNote` (null: nothing). */
 export const npshNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
@@ -29,6 +30,12 @@ export const startNoteOf = (r: Cand["result"] | null | undefined, units: UnitCho
 /** What the motor check says against a candidate's verdict, in the reader's units, for `VerdictView`'s `motorNote`. */
 export const motorNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
   const note = r ? verdictMotorNote(r.verdict, r.figures) : null;
+  return note ? renderUnits(note, units) : null;
+};
+
+/** What the maker's minimum flow says against a candidate's verdict (a duty below it), in the reader's units, for `VerdictView`'s `minFlowNote`. */
+export const minFlowNoteOf = (r: Cand["result"] | null | undefined, units: UnitChoice): string | null => {
+  const note = r ? verdictMinFlowNote(r.verdict, r.minFlow) : null;
   return note ? renderUnits(note, units) : null;
 };
 
@@ -58,7 +65,7 @@ export function candidateSeries(c: Cand, i: number, units: UnitChoice): PumpSeri
   };
   return {
     id: String(c.id),
-    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}${verdictMotorShort(r.verdict, r.figures)}${verdictStagedNpshShort(r.verdict, c.energy?.cycle)}` : r.verdict === undefined ? "not judged" : "no duty to judge"}`,
+    label: `${c.label}${adjustmentText(c, units)} — ${r.verdict ? `${verdictLabel(r.verdict.status)}${verdictNpshShort(r.verdict, r.npsh)}${verdictStartShort(r.verdict, r.stagedStart)}${verdictMotorShort(r.verdict, r.figures)}${verdictStagedNpshShort(r.verdict, c.energy?.cycle)}${verdictMinFlowShort(r.verdict, r.minFlow)}` : r.verdict === undefined ? "not judged" : "no duty to judge"}`,
     colorIndex: i,
     head: r.curve.map((p) => ({ flow: p.flow, y: p.head })),
     efficiency: pick("efficiency"),
@@ -180,12 +187,13 @@ const VERDICT_TONE: Record<Verdict["status"], string> = {
  * (verdict-npsh.ts `verdictNpshNote`, rendered in the reader's units), on the badge's line, with the NPSH rule. `startNote`:
  * what starting pumps in parallel one after another says against it (verdict-start.ts `verdictStartNote`), on the same line;
  * `motorNote`: what the motor check says against it (verdict-motor.ts `verdictMotorNote`), on the same line;
- * `stagedNpshNote`: what NPSH at a staged duty-cycle step says against it (verdict-staged-npsh.ts), on the same line.
+ * `stagedNpshNote`: what NPSH at a staged duty-cycle step says against it (verdict-staged-npsh.ts), on the same line;
+ * `minFlowNote`: a duty below the maker's minimum flow (verdict-min-flow.ts), on the same line.
  */
-export function VerdictView({ verdict, compact, testId, npshNote, npshRule, startNote, motorNote, stagedNpshNote }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string; npshNote?: string | null; npshRule?: string | null; startNote?: string | null; motorNote?: string | null; stagedNpshNote?: string | null }) {
+export function VerdictView({ verdict, compact, testId, npshNote, npshRule, startNote, motorNote, stagedNpshNote, minFlowNote }: { verdict: Verdict | null | undefined; compact?: boolean; testId?: string; npshNote?: string | null; npshRule?: string | null; startNote?: string | null; motorNote?: string | null; stagedNpshNote?: string | null; minFlowNote?: string | null }) {
   if (!verdict) return <span className="text-slate-600" data-testid={testId} data-status="none">no duty point set: nothing to judge</span>;
   return (
-    <div data-testid={testId} data-status={verdict.status} data-npsh={npshNote ? "against" : undefined} data-start={startNote ? "against" : undefined} data-motor={motorNote ? "against" : undefined} data-staged-npsh={stagedNpshNote ? "against" : undefined}>
+    <div data-testid={testId} data-status={verdict.status} data-npsh={npshNote ? "against" : undefined} data-start={startNote ? "against" : undefined} data-motor={motorNote ? "against" : undefined} data-staged-npsh={stagedNpshNote ? "against" : undefined} data-min-flow={minFlowNote ? "against" : undefined}>
       <span className={`inline-block rounded px-1.5 py-0.5 text-xs font-semibold ${VERDICT_TONE[verdict.status]}`}>{verdictLabel(verdict.status)}</span>
       {npshNote ? (
         <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-npsh` : undefined} title={npshRule ?? undefined}>
@@ -209,6 +217,12 @@ export function VerdictView({ verdict, compact, testId, npshNote, npshRule, star
         <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-staged-npsh` : undefined}>
           {" — "}
           {stagedNpshNote}
+        </span>
+      ) : null}
+      {minFlowNote ? (
+        <span className="text-xs font-semibold text-fail" data-testid={testId ? `${testId}-min-flow` : undefined} title={MIN_FLOW_RULE}>
+          {" — "}
+          {minFlowNote}
         </span>
       ) : null}
       {compact ? null : (

@@ -205,6 +205,8 @@ export interface DutyCycleInput {
   noHeadReason?: (flow: number) => string;
   /** How the `motor.units` pumps of the curve share the flow (parallel: each Q/units; series: each Q), for the BEP note at a step (stepPor.ts); absent: one pump. */
   arrangement?: "parallel" | "series";
+  /** The maker's minimum continuous flow of ONE pump on `curve` as given (at its speed), m³/s, for the note at a step below it (stepPor.ts); null or absent: none recorded. */
+  makerMinFlow?: number | null;
 }
 
 /**
@@ -231,6 +233,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   const units = input.motor.units === undefined ? 1 : requirePositive("motor.units", input.motor.units);
   if (!Number.isInteger(units)) throw new EngineInputError("motor.units", "is a whole number of motors");
   if (input.arrangement !== undefined && input.arrangement !== "parallel" && input.arrangement !== "series") throw new EngineInputError("arrangement", "must be 'parallel' or 'series' (or absent: one pump)");
+  const makerMinFlow = input.makerMinFlow == null ? null : requirePositive("makerMinFlow", input.makerMinFlow);
   const theMotor = units === 1 ? "the motor" : `each of the ${units} motors`;
   const pumpGives = units === 1 ? "the pump gives" : `the ${units} pumps together give`; // the curve is theirs together
   const etaD = input.driveEfficiency === null || input.driveEfficiency === undefined ? null : requirePositive("driveEfficiency", input.driveEfficiency);
@@ -366,7 +369,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     else if (!limitCovers(rating, shaft))
       warnings.push({ code: "motor-service-factor-step", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [1, sf], Math.max(1, sfDecimals))} load, above its rating and within rating × service factor ${sfText}: ${units === 1 ? "the" : "one pump's"} shaft power ${qtExact("power", shaft / units, [rating / units])} is above the ${qtLimit("power", rating / units, [shaft / units])} rating for ${Number(s.hours.toFixed(2))} h a year; a service factor is margin for occasional overload, not for continuous running (common practice): a motor of the next rating up is the usual choice` });
     // Off the BEP for the step's hours (stepPor.ts): at a drive's speed the BEP flow scales by it; a fixed-speed curve is as run.
-    const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement });
+    const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement, makerMinFlow });
     if (por) warnings.push(por);
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);

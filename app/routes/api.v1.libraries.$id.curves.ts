@@ -30,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     const { revisionId, paging, curveSets } = await libraryCurvesPage(viewerOfApi(c), id.output, { revisionId: rev?.output, page });
     if (revisionId) url.searchParams.set("revision", String(revisionId));
     return Response.json({
-      units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" },
+      units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm", minFlow: "m3/s" },
       revision: revisionId,
       paging,
       links: pageLinks(url, paging),

@@ -13,11 +13,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return answerById(params.id, "Model", async (id) => {
     const m = await getModel(viewerOfApi(c), id);
     return {
-      units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" },
+      units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm", minFlow: "m3/s" },
       model: { id: m.model.id, name: m.model.name, type: m.model.type, size: m.model.nominalSize, notes: m.model.notes },
       library: m.library,
       revision: m.revision,
-      curveSets: m.curves.map((x) => ({ id: x.id, speed: x.speed, impellerDiameter: x.impellerDiameter, points: x.points })),
+      curveSets: m.curves.map((x) => ({ id: x.id, speed: x.speed, impellerDiameter: x.impellerDiameter, minFlow: x.minFlow, points: x.points })),
     };
   });
 }

@@ -12,7 +12,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const viewer = viewerOf(m);
   const lib = await getLibrary(viewer, id);
   const curves = await libraryCurves(viewer, id);
-  const body = { format: "dutymark-library/1", units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm" }, library: { id: lib.id, name: lib.name, owner: lib.ownerName, description: lib.description }, curveSets: curves };
+  const body = { format: "dutymark-library/1", units: { flow: "m3/s", head: "m", efficiency: "fraction", power: "W", npshr: "m", impellerDiameter: "m", speed: "rpm", minFlow: "m3/s" }, library: { id: lib.id, name: lib.name, owner: lib.ownerName, description: lib.description }, curveSets: curves };
   return new Response(JSON.stringify(body, null, 2), {
     headers: { "Content-Type": "application/json; charset=utf-8", "Content-Disposition": `attachment; filename="dutymark-library-${id}.json"` },
   });

@@ -12,6 +12,9 @@ import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
 import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
+import { MinFlowEditor } from "~/components/MinFlowEditor";
+import { readMinFlowForm } from "~/lib/libraries/min-flow-form";
+import { MappingSchema } from "~/lib/import";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { FormError, Notice, Options } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
@@ -66,6 +69,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       throw e;
     }
   }
+  if (form.get("intent") === "min-flow") return saveMinFlows(c, form);
   const { mapping, error } = mappingFromForm(form);
   if (!mapping) return data({ error }, { status: 400 }); // the form's mapping fields are missing or malformed
   if (form.get("intent") === "import") {
@@ -84,6 +88,34 @@ export async function action({ request, params }: Route.ActionArgs) {
   return analysis(c, mapping);
 }
 
+/**
+ * The maker's minimum flow editor's figures (MinFlowEditor): read against the curves as analysed with the mapping the page
+ * was served with (`base`), written into a corrected copy of the upload, which the page then checks again.
+ */
+async function saveMinFlows(c: Awaited<ReturnType<typeof context>>, form: FormData) {
+  let base: unknown;
+  try {
+    base = JSON.parse(String(form.get("base") ?? ""));
+  } catch {
+    base = null;
+  }
+  const mapping = v.safeParse(MappingSchema, base);
+  if (!mapping.success) return data({ error: "The mapping could not be read; reload the page." }, { status: 400 });
+  const s = await analysis(c, mapping.output);
+  const r = readMinFlowForm(form, s.minFlows, c.m.user.units, { headerLine: s.sniff.headerLine, width: s.headers.length, decimalComma: s.sniff.decimalComma });
+  if (!r.ok && r.status === 404) throw data(r.error, { status: 404 });
+  if (!r.ok) return data({ error: r.error }, { status: r.status });
+  if (r.changed === 0) return { error: "No figure was changed; nothing was saved." };
+  try {
+    const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, r.edits, encodingFromForm(form), r.extraColumns);
+    if (id === null) return { error: "No figure was changed; nothing was saved." };
+    throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
+  } catch (e) {
+    if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 });
+    throw e;
+  }
+}
+
 const FIELD_LABEL: Record<string, string> = {
   model: "Model",
   speed: "Speed",
@@ -93,6 +125,7 @@ const FIELD_LABEL: Record<string, string> = {
   efficiency: "Efficiency",
   power: "Shaft power",
   npshr: "NPSHr",
+  minflow: "Maker's minimum flow",
   type: "Pump type",
   size: "Nominal size",
   notes: "Notes",
@@ -321,6 +354,7 @@ export default function UploadPreview() {
         </section>
       </Form>
       <FixGrid headers={d.headers} rows={d.flagged.rows} total={d.flagged.total} encoding={d.mapping.encoding ?? d.encoding.name} />
+      <MinFlowEditor list={d.minFlows} units={l.unitSystem} mapping={JSON.stringify(d.mapping)} encoding={d.mapping.encoding ?? d.encoding.name} />
     </div>
   );
 }

@@ -4,7 +4,7 @@ import { requireMember } from "~/lib/auth/guards.server";
 import { getSelection } from "~/lib/projects";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { readId } from "~/lib/shared/forms.server";
-import { motorNoteOf, npshNoteOf, stagedNpshNoteOf, RunTable, startNoteOf, SizingCaution, SystemWarnings, VerdictView, WorkbenchChart } from "~/components/workbench";
+import { minFlowNoteOf, motorNoteOf, npshNoteOf, stagedNpshNoteOf, RunTable, startNoteOf, SizingCaution, SystemWarnings, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { CandidateTable, deadHeadText } from "~/components/CandidateTable";
 import { ReportMethods } from "~/components/ReportMethods";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
@@ -89,7 +89,7 @@ export default function SelectionReport() {
           </p>
         ) : (
           <div className="mt-1 text-sm">
-            <VerdictView verdict={f.result.verdict} testId="report-verdict" npshNote={npshNoteOf(f.result, sys)} npshRule={f.result.npsh?.rule} startNote={startNoteOf(f.result, sys)} motorNote={motorNoteOf(f.result, sys)} stagedNpshNote={stagedNpshNoteOf(f.result, f.energy, sys)} />
+            <VerdictView verdict={f.result.verdict} testId="report-verdict" npshNote={npshNoteOf(f.result, sys)} npshRule={f.result.npsh?.rule} startNote={startNoteOf(f.result, sys)} motorNote={motorNoteOf(f.result, sys)} stagedNpshNote={stagedNpshNoteOf(f.result, f.energy, sys)} minFlowNote={minFlowNoteOf(f.result, sys)} />
           </div>
         )}
         {f.systemCurve?.dutyCheck ? (

@@ -16,6 +16,7 @@ import { AccessBadge, curveLabel } from "~/components/library-bits";
 import { SizingCaution, VerdictView } from "~/components/workbench";
 import { verdictNpshNote } from "~/lib/projects/verdict-npsh";
 import { verdictStartNote } from "~/lib/projects/verdict-start";
+import { verdictMinFlowNote } from "~/lib/projects/verdict-min-flow";
 import { npshaAtDutyNote, npshLeftOutText } from "~/lib/projects/search-npsha";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
@@ -120,6 +121,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       // What starting pumps in parallel one after another says against it (verdict-start.ts), on the same line; the key only
       // where there is a note (the search judges one pump, so none today): a row's data stays small.
       ...startOf(r.verdict, r.stagedStart),
+      // A duty below the maker's minimum continuous flow (verdict-min-flow.ts), on the same line; the key only where it says so.
+      ...minFlowOf(r.verdict, r.minFlow),
       // The cautions that qualify the verdict (dead-head, unstable crossings, band edges', start of a pump in parallel or series).
       cautions: r.cautions,
       // The search's own warnings at the typed duty (the engine's: trim approximate; water figures on a liquid), as the API's `warnings`.
@@ -169,6 +172,12 @@ function readPicks(values: unknown[], field: "one" | "add") {
 const searchWarningsOf = (ws: readonly { message: string }[], cautions: readonly string[]) => [...new Set(ws.map((w) => w.message))].filter((w) => !cautions.includes(w));
 
 const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
+
+/** A row's maker's-minimum-flow note (verdict-min-flow.ts `verdictMinFlowNote`) under `verdictMinFlow`, or nothing where it says nothing. */
+function minFlowOf(verdict: { status: string } | null, check: unknown): { verdictMinFlow?: string } {
+  const note = verdictMinFlowNote(verdict, check);
+  return note ? { verdictMinFlow: note } : {};
+}
 
 /** A row's staged-start note (verdict-start.ts `verdictStartNote`) under `verdictStart`, or nothing where it says nothing. */
 function startOf(verdict: { status: string } | null, staged: unknown): { verdictStart?: string } {
@@ -307,7 +316,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                       <ArrangementFigures units={sys} basis={basis} words={d.arrangement.words} operatingPoint={r.operatingPoint} perPump={r.perPump} testId={`search-arrangement-${r.curveSetId}`} />
                     </td>
                     <td className="max-w-xs">
-                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} startNote={r.verdictStart} />
+                      <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} startNote={r.verdictStart} minFlowNote={r.verdictMinFlow} />
                       {r.cautions.length ? (
                         <details className="text-xs text-duty-ink" data-testid={`search-cautions-${r.curveSetId}`}>
                           <summary>{r.cautions.length} caution{r.cautions.length === 1 ? "" : "s"}</summary>

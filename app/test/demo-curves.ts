@@ -10,10 +10,11 @@ const M3H = 1 / 3600;
 /** Every curve of every demo library, generated once. */
 export const demoCurves: DemoCurve[] = generateDemo().flatMap((d) => d.curves);
 
-/** A demo curve as a curve set in SI (points as stored). */
-export function demoCurveSI(c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number } {
+/** A demo curve as a curve set in SI (points as stored; the maker's minimum flow where the demo records one, else null). */
+export function demoCurveSI(c: DemoCurve): { points: CurvePointsIn; speed: number; impellerDiameter: number; minFlow: number | null } {
   return {
     speed: c.speed,
+    minFlow: c.minFlowM3h != null ? c.minFlowM3h * M3H : null,
     impellerDiameter: c.impellerMm / 1000,
     points: c.points.map((p) => ({ flow: p.flowM3h * M3H, head: p.headM, efficiency: p.effPct / 100, power: p.powerKw * 1000, npshr: p.npshrM })),
   };

@@ -2,11 +2,12 @@
  * What the importer hands on: a curve set in SI and its points, as valibot schemas, exported so the
  * service can re-check before it writes (import-plan.ts `writable` writes the same rules out for speed).
  * Besides the shapes they hold the engine's rules (point-rules.ts): power and NPSHr above zero, the
- * first head above zero, efficiency above zero where flow is above zero, the head-rise rule, and a
- * plausible best efficiency. Pure.
+ * first head above zero, efficiency above zero where flow is above zero, the head-rise rule, a
+ * plausible best efficiency, and a maker's minimum flow below the last published flow (min-flow.ts). Pure.
  */
 import * as v from "valibot";
 import { BEST_EFFICIENCY, efficiencyPlausible, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import { MIN_FLOW_RULE, minFlowFits } from "./min-flow";
 
 const NonNegative = v.pipe(v.number(), v.finite(), v.minValue(0));
 const Positive = v.pipe(v.number(), v.finite(), v.gtValue(0));
@@ -29,6 +30,8 @@ export const CurveSetSchema = v.pipe(
     type: v.optional(v.string()),
     size: v.optional(v.string()),
     notes: v.optional(v.string()),
+    /** The maker's minimum continuous flow, m³/s (min-flow.ts); absent where the file gives none. */
+    minFlow: v.optional(Positive),
     points: v.pipe(v.array(CurvePointSchema), v.minLength(3)),
     sourceRows: v.array(v.pipe(v.number(), v.integer(), v.minValue(1))),
     ok: v.boolean(),
@@ -45,6 +48,7 @@ export const CurveSetSchema = v.pipe(
     }
     return true;
   }, `head must not rise above the lowest head before it by more than ${RISE_FRACTION * 100} % of the first head`),
+  v.check((c) => c.minFlow === undefined || minFlowFits(c.minFlow, c.points[c.points.length - 1].flow), MIN_FLOW_RULE),
   v.check((c) => {
     const best = c.points.reduce((m, p) => Math.max(m, p.efficiency ?? -1), -1);
     return best <= 0 || efficiencyPlausible(best);

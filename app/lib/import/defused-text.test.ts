@@ -47,7 +47,7 @@ describe("text cells defused by our CSV writer read back as written", () => {
   it("the library export and the tracer's CSV read back with the names they were given", () => {
     const set = (model: string, id: number): LibraryCurveSet => ({
       id, modelId: id, model, type: "-end-suction", nominalSize: "@DN65", speed: 2900, impellerDiameter: 0.2 + id / 1000,
-      impellerMin: null, impellerMax: null, ratedSpeed: null,
+      impellerMin: null, impellerMax: null, ratedSpeed: null, minFlow: null,
       points: [0, 0.005, 0.01].map((flow, i) => ({ flow, head: 50 - 20 * i, efficiency: i ? 0.6 : null, power: null, npshr: null })),
     });
     const lib = analyseCsv(curvesToCsv(NAMES.map((n, i) => set(n, i + 1))));

@@ -15,6 +15,7 @@ import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type Va
 import { efficiencyPlausible, NPSHR_SMALL, risesTooMuch } from "./point-rules";
 import { looksLikeRating } from "./constant-power";
 import { textCell } from "./text-cells";
+import { minFlowFits } from "./min-flow";
 
 const NUMERIC: NumericField[] = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"];
 
@@ -82,8 +83,16 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   const slotOf = new Int8Array(width).fill(-1);
   const factor = new Float64Array(7).fill(NaN);
   const colOf = new Int32Array(11).fill(-1);
+  let minCol = -1; // the maker's minimum flow (min-flow.ts): one figure per curve, read per row below
+  let minFactor = NaN;
   for (const c of mapping.columns) {
     if (c.field === "ignore" || c.index >= width) continue;
+    if (c.field === "minflow") {
+      if (minCol !== -1) return null;
+      minCol = c.index;
+      minFactor = SI_FACTOR.minflow[c.unit as Unit] ?? NaN;
+      continue;
+    }
     const k = NUMERIC.indexOf(c.field as NumericField);
     const slot = k >= 0 ? k : 7 + ["model", "type", "size", "notes"].indexOf(c.field);
     if (slot < 0 || colOf[slot] !== -1) return null;
@@ -205,6 +214,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
 
     if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
       if (cur && curPoints < 3) return null; // too few points
+      if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null; // a maker's minimum flow not below the curve's end
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
       if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
       const key = curveKey(model, speed, impeller);
@@ -228,6 +238,12 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
         const v = textCell(body.slice(cellStart[ci], cellEnd[ci]));
         if (v) cur[f] = v;
       }
+    }
+    if (minCol >= 0 && cellStart[minCol] !== cellEnd[minCol]) {
+      const m = parseNumber(body.slice(cellStart[minCol], cellEnd[minCol]), dc) * minFactor;
+      // unreadable, not above zero, or another figure than the curve's first: the full path names it
+      if (!(m > 0 && m <= 1e12) || (cur.minFlow !== undefined && cur.minFlow !== m)) return null;
+      cur.minFlow = m;
     }
     const flow = num[2], head = num[3], eff = num[4], pow = num[5];
     // the engine's point rules (point-rules.ts): a zero power or NPSHr, or a zero efficiency at flow, needs a message
@@ -257,6 +273,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     curPoints++;
   }
   if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best))) return null;
+  if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null;
   if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null;
   const sets = store.sets.length;
   return packedResult(store, { pointRows, pointsAccepted: store.count, curveSets: sets, curveSetsOk: sets, errors: 0, warnings: 0 });

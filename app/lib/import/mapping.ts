@@ -59,8 +59,8 @@ export const MappedColumnSchema = v.pipe(
     block: v.optional(v.nullable(BlockSchema)),
   }),
   v.check((c) => unitAllowed(c.field, c.unit), "this unit does not fit the field"),
-  v.check((c) => !c.block || c.field === "flow" || c.field === "head" || c.field === "efficiency" || c.field === "power" || c.field === "npshr",
-    "only flow, head, efficiency, power and NPSHr columns can belong to a block"),
+  v.check((c) => !c.block || c.field === "flow" || c.field === "head" || c.field === "efficiency" || c.field === "power" || c.field === "npshr" || c.field === "minflow",
+    "only flow, head, efficiency, power, NPSHr and maker's minimum flow columns can belong to a block"),
 );
 
 export const MappingSchema = v.pipe(
@@ -364,7 +364,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
     let any = false;
     blocks.forEach((b, bi) => {
       const own = b.columns.map((c) => cellOf(row, c));
-      if (own.every((x) => x.raw.trim() === "")) return;
+      if (own.every((x, i) => x.raw.trim() === "" || !POINT_FIELDS.includes(b.columns[i].field as NumericField))) return; // a maker's minimum flow alone is no point
       any = true;
       const cells: Partial<Record<KeyField, Cell>> = { ...base };
       b.columns.forEach((c, i) => (cells[c.field as KeyField] = own[i]));

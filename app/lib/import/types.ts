@@ -26,7 +26,8 @@ export type ProblemCode =
   | "inconsistent"
   | "power-constant"
   | "npshr-small"
-  | "key-not-given";
+  | "key-not-given"
+  | "min-flow";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -53,6 +53,8 @@ const PERCENT_QUALIFIER: Rule = { re: /\d+(?:[.,]\d+)?\s*%/, why: PERCENT_SPEED_
 /** Checked before the field's own units (a word that also holds one of them, or a marker that changes its meaning). */
 const BEFORE: Partial<Record<NumericField, Rule[]>> = {
   flow: [FREQUENCY_QUALIFIER, PERCENT_QUALIFIER],
+  // "Min flow % BEP": a share of a flow the file need not give (a figure per curve, in a flow unit, is what the importer reads).
+  minflow: [FREQUENCY_QUALIFIER, { re: /%|\bpercent\b|\bpct\b/, why: "a minimum flow in % of the BEP flow needs that BEP flow: write the maker's figure as a flow" }],
   head: [FREQUENCY_QUALIFIER, PERCENT_QUALIFIER],
   npshr: [FREQUENCY_QUALIFIER], // not "%": "NPSH 3%" is the NPSHr at a 3 % head drop
   efficiency: [FREQUENCY_QUALIFIER],
@@ -66,19 +68,23 @@ const BEFORE: Partial<Record<NumericField, Rule[]>> = {
   ],
 };
 
+/** Flow units the importer does not read: a mass flow, or a volume flow in units it has no factor for. */
+const OTHER_FLOW: Rule[] = [
+  { re: tok("kg\\s*/\\s*(?:s|sec|min|h|hr)|t\\s*/\\s*h|tph|tonnes?\\s*/\\s*h|lbs?\\s*/\\s*(?:s|sec|min|h|hr)"), why: MASS_WHY },
+  {
+    re: tok(
+      "cfm|cfs|cfh|ft3\\s*/\\s*(?:s|sec|min|h|hr)|cu\\.?\\s*ft|gph|gpd|mgd|gal(?:lons?)?\\.?\\s*(?:/|per)\\s*(?:s|sec|h|hr|d|day)|bbl\\s*/\\s*(?:d|day|h|hr)|bpd|bph|ml\\s*/\\s*(?:s|sec|min|h|hr)|l\\s*/\\s*d(?:ay)?|m3\\s*/\\s*(?:week|month|a|y|yr)",
+    ),
+    why: null,
+  },
+];
+
 /** Checked when the header names none of the field's own units. */
 const AFTER: Record<NumericField, Rule[]> = {
   head: [PRESSURE, OTHER_LENGTH],
   npshr: [PRESSURE, OTHER_LENGTH],
-  flow: [
-    { re: tok("kg\\s*/\\s*(?:s|sec|min|h|hr)|t\\s*/\\s*h|tph|tonnes?\\s*/\\s*h|lbs?\\s*/\\s*(?:s|sec|min|h|hr)"), why: MASS_WHY },
-    {
-      re: tok(
-        "cfm|cfs|cfh|ft3\\s*/\\s*(?:s|sec|min|h|hr)|cu\\.?\\s*ft|gph|gpd|mgd|gal(?:lons?)?\\.?\\s*(?:/|per)\\s*(?:s|sec|h|hr|d|day)|bbl\\s*/\\s*(?:d|day|h|hr)|bpd|bph|ml\\s*/\\s*(?:s|sec|min|h|hr)|l\\s*/\\s*d(?:ay)?|m3\\s*/\\s*(?:week|month|a|y|yr)",
-      ),
-      why: null,
-    },
-  ],
+  flow: OTHER_FLOW,
+  minflow: OTHER_FLOW,
   power: [
     { re: tok("ps|cv|ch"), why: "metric horsepower (PS, CV, ch) is 735.49875 W (75 kgf·m/s), not the 745.69987 W of the hp the importer reads" },
     { re: tok("kva|va"), why: "an apparent electrical power is not the pump's shaft power" },
@@ -103,7 +109,7 @@ function first(rules: Rule[] | undefined, norm: string): RefusedWord | null {
 
 /** A refused word that overrides any unit the header also names (checked first). */
 export function refusedBefore(field: NumericField, norm: string): RefusedWord | null {
-  if (field === "flow" && GALLONS_PER_MINUTE.test(norm)) {
+  if ((field === "flow" || field === "minflow") && GALLONS_PER_MINUTE.test(norm)) {
     const imp = norm.match(IMPERIAL_MARK);
     const us = norm.match(US_MARK);
     if (imp && us)

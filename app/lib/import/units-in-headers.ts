@@ -23,9 +23,10 @@ import { PER_UNIT } from "./per-unit";
 import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
 import type { PowerKind } from "./power-kinds";
 
-export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr"] as const;
+export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr", "minflow"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
-export const FIELDS = ["model", "speed", "impeller", "flow", "head", "efficiency", "power", "npshr", "type", "size", "notes", "ignore"] as const;
+/** `minflow`: the maker's minimum continuous flow of a curve set (one figure per curve, in a flow unit: min-flow.ts). */
+export const FIELDS = ["model", "speed", "impeller", "flow", "head", "efficiency", "power", "npshr", "minflow", "type", "size", "notes", "ignore"] as const;
 
 export type NumericField = (typeof NUMERIC_FIELDS)[number];
 export type TextField = (typeof TEXT_FIELDS)[number];
@@ -47,25 +48,11 @@ export type SpeedUnit = (typeof SPEED_UNITS)[number];
 export type Unit = FlowUnit | LengthUnit | DiameterUnit | EfficiencyUnit | PowerUnit | SpeedUnit;
 
 export const UNITS_BY_FIELD: Record<NumericField, readonly Unit[]> = {
-  speed: SPEED_UNITS,
-  impeller: DIAMETER_UNITS,
-  flow: FLOW_UNITS,
-  head: LENGTH_UNITS,
-  efficiency: EFFICIENCY_UNITS,
-  power: POWER_UNITS,
-  npshr: LENGTH_UNITS,
+  speed: SPEED_UNITS, impeller: DIAMETER_UNITS, flow: FLOW_UNITS, head: LENGTH_UNITS, efficiency: EFFICIENCY_UNITS, power: POWER_UNITS, npshr: LENGTH_UNITS, minflow: FLOW_UNITS,
 };
 
 /** Unit assumed when a header carries none (efficiency is decided from the data instead, see mapping.ts). */
-export const DEFAULT_UNIT: Record<NumericField, Unit> = {
-  speed: "rpm",
-  impeller: "mm",
-  flow: "m3/h",
-  head: "m",
-  efficiency: "%",
-  power: "kW",
-  npshr: "m",
-};
+export const DEFAULT_UNIT: Record<NumericField, Unit> = { speed: "rpm", impeller: "mm", flow: "m3/h", head: "m", efficiency: "%", power: "kW", npshr: "m", minflow: "m3/h" };
 
 export const FT = 0.3048;
 export const INCH = 0.0254;
@@ -75,18 +62,14 @@ export const LBF = 4.4482216152605; // N
 export const HP = 550 * FT * LBF; // W, 745.69987158227022
 
 /** Multiply a value in `unit` by this to get SI (see file header for targets). */
+const FLOW_FACTORS: Partial<Record<Unit, number>> = {
+  "m3/h": 1 / 3600, "m3/s": 1, "m3/min": 1 / 60, "m3/d": 1 / 86400, "l/s": 1e-3, "l/min": 1e-3 / 60, "l/h": 1e-3 / 3600, gpm: US_GALLON / 60, "imp gpm": UK_GALLON / 60,
+};
+
+/** Multiply a value in `unit` by this to get SI (see file header for targets). */
 export const SI_FACTOR: Record<NumericField, Partial<Record<Unit, number>>> = {
-  flow: {
-    "m3/h": 1 / 3600,
-    "m3/s": 1,
-    "m3/min": 1 / 60,
-    "m3/d": 1 / 86400,
-    "l/s": 1e-3,
-    "l/min": 1e-3 / 60,
-    "l/h": 1e-3 / 3600,
-    gpm: US_GALLON / 60,
-    "imp gpm": UK_GALLON / 60,
-  },
+  flow: FLOW_FACTORS,
+  minflow: FLOW_FACTORS, // the maker's minimum flow: a flow
   head: { m: 1, ft: FT },
   npshr: { m: 1, ft: FT },
   impeller: { mm: 1e-3, in: INCH, m: 1 },
@@ -205,8 +188,15 @@ const NOT_THE_PUMPS: RegExp[] = [
   /power\s*-?\s*factor|\bcos\s*(?:φ|phi)|\bpf\b|leistungsfaktor|facteur\s+de\s+puissance/,
 ];
 
+/**
+ * A maker's minimum (continuous, stable) flow: one figure per curve, read before FIELD_RULES' flow ("Min flow m³/h", "Minimum
+ * continuous flow", "Qmin", "Q_min", "min_flow_m3h", "MCSF", "Mindestförderstrom", "débit minimum").
+ */
+const MIN_FLOW = /\bmin(?:imum|\.)?\s*(?:(?:continuous|cont\.?|stable|allowable|allowed)\s*)*(?:flow|capacity|q)\b|\bflow\s*min(?:imum)?\b|\bq\s*-?\s*min\b|\bmcs?f\b|mindest\s*-?\s*(?:förderstrom|durchfluss|fördermenge|menge)|débit\s*min/;
+
 function fieldWords(norm: string): Field {
   if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
+  if (MIN_FLOW.test(norm)) return "minflow";
   if (FOERDERLEISTUNG.test(norm) && (detectUnit("flow", norm) ?? refusedAfter("flow", norm)) !== null) return "flow"; // ambiguous-power.ts
   for (const [field, re] of FIELD_RULES) if (re.test(norm)) return field;
   return "ignore";
@@ -267,6 +257,7 @@ export function detectUnit(field: Field, norm: string): Unit | null {
   if (field !== "ignore" && (NUMERIC_FIELDS as readonly string[]).includes(field) && refusedBefore(field as NumericField, norm)) return null;
   switch (field) {
     case "flow":
+    case "minflow":
       if (/m3\s*\/\s*s(ec)?\b/.test(norm)) return "m3/s";
       if (/(?:m3|cu\.?\s*m|cbm)\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";
       if (/m3\s*\/\s*min\b/.test(norm)) return "m3/min";
@@ -320,6 +311,7 @@ const FIELD_WORD: Record<NumericField, string> = {
   power: "power",
   speed: "speed",
   impeller: "impeller diameter",
+  minflow: "the maker's minimum flow",
 };
 
 /** The word as the header spells it (the match was made on the lower-case normalised text). */
@@ -345,7 +337,7 @@ export function headerUnitRefusal(header: string, field: Field): UnitRefusal | n
   if (!(NUMERIC_FIELDS as readonly string[]).includes(field)) return null;
   const norm = normaliseHeader(header);
   const { qualifier, rest } = extractQualifier(norm);
-  const pointField = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr";
+  const pointField = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr" || field === "minflow";
   return refusal(field as NumericField, header, qualifier && pointField ? rest : norm);
 }
 
@@ -384,8 +376,8 @@ export function guessHeader(header: string): HeaderGuess {
   const norm = normaliseHeader(header);
   const { qualifier, rest } = extractQualifier(norm);
   let field = detectField(rest);
-  // "Head 250mm" and "Q@2900" are points of one curve; a qualifier on a speed/impeller column would be odd, drop it.
-  const q = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr" ? qualifier : null;
+  // "Head 250mm", "Q@2900" and "Qmin 250mm" are of one curve; a qualifier on a speed/impeller column would be odd, drop it.
+  const q = field === "flow" || field === "head" || field === "efficiency" || field === "power" || field === "npshr" || field === "minflow" ? qualifier : null;
   const base = q ? rest : norm;
   if (!q) field = detectField(norm);
   if (field === "ignore" || (TEXT_FIELDS as readonly string[]).includes(field)) return unmapped(field === "ignore" ? headerPowerKind(header) : null, field);

@@ -25,7 +25,8 @@
  *   block, is a duplicate (duplicate-curve): the first occurrence is kept, the repeat dropped;
  * - a curve set without speed gets a warning (no-speed);
  * - a power the same at every point over 30 % of the flow or more is a warning (power-constant: a motor rating, constant-power.ts);
- * - an NPSHr above zero and below 0.1 m is a warning at its row (npshr-small, point-rules.ts), the point kept with it.
+ * - an NPSHr above zero and below 0.1 m is a warning at its row (npshr-small, point-rules.ts), the point kept with it;
+ * - a maker's minimum flow: one figure per curve, above zero, below its last published flow (min-flow, min-flow.ts).
  * A point with an error is left out of its curve; any error charged to a curve marks it ok: false.
  */
 import type { CurvePoint, CurveSet } from "./curve-schema";
@@ -37,6 +38,7 @@ import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { constantPowerReason, PowerRun } from "./constant-power";
+import { MinFlowCells } from "./min-flow";
 import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -70,13 +72,7 @@ export function curveKey(model: string, speed: number | null, impellerM: number 
 }
 
 const FIELD_LABEL: Record<NumericField, string> = {
-  speed: "speed",
-  impeller: "impeller diameter",
-  flow: "flow",
-  head: "head",
-  efficiency: "efficiency",
-  power: "power",
-  npshr: "NPSHr",
+  speed: "speed", impeller: "impeller diameter", flow: "flow", head: "head", efficiency: "efficiency", power: "power", npshr: "NPSHr", minflow: "maker's minimum flow",
 };
 
 interface Building {
@@ -128,6 +124,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     problems.push({ row, column, reason, severity, code, curveKey: curve });
 
   const { splits, beside } = blankKeyRuns(rows, opts.decimalComma);
+  const minFlows = new MinFlowCells(opts.decimalComma); // one figure per curve, judged once its points are known
   for (let ri = 0; ri < rows.length; ri++) {
     const lr = rows[ri];
     const rowProblems: Array<Omit<Problem, "curveKey">> = [];
@@ -260,6 +257,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     }
     b.lastLine = lr.line;
     b.set.sourceRows.push(lr.line);
+    minFlows.add(key, lr);
     for (const f of ["type", "size", "notes"] as const) {
       const cell = lr.cells[f];
       const t = cell ? textCell(cell.raw) : undefined;
@@ -361,6 +359,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       add(powers.firstLine, b.powerColumn, "power-constant", constantPowerReason(powers, key, b.powerColumn ?? "power"), key, "warning");
     if (b.set.points.length < 3)
       add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
+    problems.push(...minFlows.judge(key, b.set)); // sets b.set.minFlow where the figure holds
     if (b.set.speed === null)
       add(b.firstLine, null, "no-speed", `${NO_SPEED_WARNING}; map a speed column or set a default speed`, key, "warning");
     curveSets.push(b.set);
@@ -368,9 +367,9 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
 
   const policy = opts.policy ?? "skip-curves";
   // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
-  // fewer than 3 good points, or whose best efficiency is implausible (no point to drop: the column's
+  // fewer than 3 good points, or whose best efficiency or maker's minimum flow is wrong (no point to drop: the column's
   // unit or values are wrong), is kept out (the later copy of a duplicate is never built).
-  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible";
+  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "min-flow";
   const badKeys = new Set(
     problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
   );

@@ -15,11 +15,11 @@ type Mode = "as stored" | "no diameter" | "no speed" | "neither";
 const MODES: Mode[] = ["as stored", "no diameter", "no speed", "neither"];
 
 const M3H = 1 / 3600;
-const asLibrarySet = (c: Omit<LibraryCurveSet, "id" | "modelId" | "impellerMin" | "impellerMax" | "ratedSpeed">): LibraryCurveSet =>
-  ({ id: 0, modelId: 0, impellerMin: null, impellerMax: null, ratedSpeed: null, ...c });
+const asLibrarySet = (c: Omit<LibraryCurveSet, "id" | "modelId" | "impellerMin" | "impellerMax" | "ratedSpeed" | "minFlow"> & { minFlow?: number | null }): LibraryCurveSet =>
+  ({ id: 0, modelId: 0, impellerMin: null, impellerMax: null, ratedSpeed: null, minFlow: null, ...c });
 const fromImport = (c: CurveSet) =>
   asLibrarySet({
-    model: c.model, type: c.type ?? "", nominalSize: c.size ?? "", speed: c.speed, impellerDiameter: c.impellerDiameter,
+    model: c.model, type: c.type ?? "", nominalSize: c.size ?? "", speed: c.speed, impellerDiameter: c.impellerDiameter, minFlow: c.minFlow ?? null,
     points: c.points.map((p) => ({ flow: p.flow, head: p.head, efficiency: p.efficiency ?? null, power: p.power ?? null, npshr: p.npshr ?? null })),
   });
 

@@ -124,7 +124,7 @@ describe("library CSV export → import into a fresh library", () => {
 
 describe("curvesToCsv key columns", () => {
   const set = (model: string, speed: number | null, impellerDiameter: number | null): LibraryCurveSet => ({
-    id: 1, modelId: 1, model, type: "", nominalSize: "", speed, impellerDiameter, impellerMin: null, impellerMax: null, ratedSpeed: null,
+    id: 1, modelId: 1, model, type: "", nominalSize: "", speed, impellerDiameter, impellerMin: null, impellerMax: null, ratedSpeed: null, minFlow: null,
     points: [0, 0.001, 0.002].map((flow, i) => ({ flow, head: 10 - i, efficiency: null, power: null, npshr: null })),
   });
 

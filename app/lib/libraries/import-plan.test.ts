@@ -90,7 +90,7 @@ describe("the LOAD DATA text: the worker's lines and the writer's own", () => {
     const setPrefix = (i: number) => `${modelIds.get(plan.models[plan.setModel[i]].name)}\t42`;
     const setsExpected = join(withIds(sets, identity, setPrefix, 2000));
     for (const perPiece of [2000, 7]) expect(join(linesHere(plan, "sets", setPrefix, perPiece)), `pieces of ${perPiece}`).toBe(setsExpected); // source: the worker's path
-    expect(setsExpected.split("\n")[0]).toBe(`10000000\t42\t2900\t0.2\t0\t${3 * SI_FACTOR.flow["m3/h"]!}\t40\t${40 - 2 / 3}\t3`); // source: construction (A-1: 3 points, flow 0–3 m³/h times the SI factor 1/3600 as the importer applies it, head 40 → 40 − 2/3 m, Ø200 mm)
+    expect(setsExpected.split("\n")[0]).toBe(`10000000\t42\t2900\t0.2\t0\t${3 * SI_FACTOR.flow["m3/h"]!}\t40\t${40 - 2 / 3}\t3\t\\N`); // source: construction (A-1: 3 points, flow 0–3 m³/h times the SI factor 1/3600 as the importer applies it, head 40 → 40 − 2/3 m, Ø200 mm; no maker's minimum flow)
   });
 });
 

@@ -5,6 +5,7 @@
 // entry per model; it crosses to the main thread by transfer, not by copying 100 000 objects.
 import { curveNameOfKey, type CurveSet, type Mapping } from "../import";
 import { packedOf, POINT_WIDTH, PointStore } from "../import/packed";
+import { minFlowFits } from "../import/min-flow";
 import type { StoredAnalysis } from "./upload-analysis";
 
 export type PlannedModel = {
@@ -21,10 +22,11 @@ export type ImportPlan = {
   /** The mapping applied (saved on the library with the import). */
   mapping: Mapping;
   models: PlannedModel[];
-  /** Per curve set: index into `models`, speed (rpm) and impeller diameter (m), NaN when not given. */
+  /** Per curve set: index into `models`, speed (rpm), impeller diameter (m) and the maker's minimum flow (m³/s), NaN when not given. */
   setModel: Int32Array;
   setSpeed: Float64Array;
   setImpeller: Float64Array;
+  setMinFlow: Float64Array;
   /** Where each curve set's points start in `values` (in points; curve sets + 1 entries). */
   starts: Int32Array;
   values: Float64Array;
@@ -44,7 +46,7 @@ export type ImportPlan = {
  * LOAD DATA lines as ASCII bytes without the ids that only the transaction knows, and where each line
  * ends (lines + 1 offsets, the first 0). The writer puts the ids in front (import-write.server.ts
  * withIds): a copy, not a number formatted, on the main thread.
- * - curve sets: "\tspeed\timpeller\tflow_min\tflow_max\thead_max\thead_min\tpoint_count\n" (model id and revision id go in front);
+ * - curve sets: "\tspeed\timpeller\tflow_min\tflow_max\thead_max\thead_min\tpoint_count\tmin_flow\n" (model id and revision id go in front);
  * - points: "\tseq\tflow\thead\tefficiency\tpower\tnpshr\n" (the curve set's id goes in front); \N when absent.
  */
 export type Lines = { bytes: Uint8Array; ends: Int32Array };
@@ -82,11 +84,11 @@ function writeLines(values: Float64Array, fields: number): Lines {
   return { bytes: bytes.slice(0, o), ends };
 }
 
-/** The curve sets' lines: speed, impeller, flow range, head range (max, min) of the points as planned, point count. */
-export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">): Lines {
+/** The curve sets' lines: speed, impeller, flow range, head range (max, min) of the points as planned, point count, the maker's minimum flow. */
+export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller" | "setMinFlow">): Lines {
   const sets = plan.starts.length - 1;
   const v = plan.values;
-  const fields = new Float64Array(sets * 7);
+  const fields = new Float64Array(sets * SET_FIELDS);
   for (let i = 0; i < sets; i++) {
     const a = plan.starts[i], b = plan.starts[i + 1];
     let lo = Infinity, hi = -Infinity;
@@ -95,7 +97,7 @@ export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed"
       if (h < lo) lo = h;
       if (h > hi) hi = h;
     }
-    const o = i * 7;
+    const o = i * SET_FIELDS;
     fields[o] = plan.setSpeed[i];
     fields[o + 1] = plan.setImpeller[i];
     fields[o + 2] = v[a * POINT_WIDTH];
@@ -103,9 +105,13 @@ export function setLines(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed"
     fields[o + 4] = hi;
     fields[o + 5] = lo;
     fields[o + 6] = b - a;
+    fields[o + 7] = plan.setMinFlow[i];
   }
-  return writeLines(fields, 7);
+  return writeLines(fields, SET_FIELDS);
 }
+
+/** Numbers per curve set line (setLines). */
+const SET_FIELDS = 8;
 
 /** The points' lines: seq within the curve set, then the five values. */
 export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
@@ -124,27 +130,31 @@ export function pointLines(plan: Pick<ImportPlan, "starts" | "values">): Lines {
 }
 
 /** Curve sets g to h − 1 of a plan as a plan of their own (starts from 0; the arrays are views, not copies): their lines alone. */
-export function planPart(plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">, g: number, h: number): Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller"> {
+export function planPart(plan: PlanPart, g: number, h: number): PlanPart {
   const a = plan.starts[g];
   return {
     starts: plan.starts.slice(g, h + 1).map((k) => k - a),
     values: plan.values.subarray(a * POINT_WIDTH, plan.starts[h] * POINT_WIDTH),
     setSpeed: plan.setSpeed.subarray(g, h),
     setImpeller: plan.setImpeller.subarray(g, h),
+    setMinFlow: plan.setMinFlow.subarray(g, h),
   };
 }
 
+/** What the LOAD DATA lines are made from. */
+export type PlanPart = Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller" | "setMinFlow">;
+
 /** The typed arrays of a plan (to transfer between threads). */
 export const planBuffers = (p: ImportPlan): ArrayBuffer[] =>
-  [p.setModel, p.setSpeed, p.setImpeller, p.starts, p.values].map((a) => a.buffer as ArrayBuffer);
+  [p.setModel, p.setSpeed, p.setImpeller, p.setMinFlow, p.starts, p.values].map((a) => a.buffer as ArrayBuffer);
 
 const finiteOrAbsent = (x: number | undefined) => x === undefined || (Number.isFinite(x) && x >= 0);
 
 /**
- * Re-check of what is about to be written (finite SI values, ≥ 3 points, rising flow): the same rules
+ * Re-check of what is about to be written (finite SI values, ≥ 3 points, rising flow, a maker's minimum flow below the last): the same rules
  * as the import core's CurveSetSchema, written out because this runs over every point of big files.
  */
-export function writable(c: Pick<CurveSet, "model" | "points">): boolean {
+export function writable(c: Pick<CurveSet, "model" | "points" | "minFlow">): boolean {
   if (!c.model.trim() || c.points.length < 3) return false;
   let prev = -Infinity;
   for (const p of c.points) {
@@ -152,7 +162,7 @@ export function writable(c: Pick<CurveSet, "model" | "points">): boolean {
     if (!finiteOrAbsent(p.efficiency) || (p.efficiency ?? 0) > 1 || !finiteOrAbsent(p.power) || !finiteOrAbsent(p.npshr)) return false;
     prev = p.flow;
   }
-  return true;
+  return c.minFlow === undefined || minFlowFits(c.minFlow, prev); // the maker's minimum flow below the last flow (min-flow.ts)
 }
 
 /** writable() on curve set `s` of a point store (POINT_WIDTH doubles per point, NaN when absent). */
@@ -169,7 +179,8 @@ function writableInStore(store: PointStore, s: number): boolean {
     if ((power === power && !(Number.isFinite(power) && power >= 0)) || (npshr === npshr && !(Number.isFinite(npshr) && npshr >= 0))) return false;
     prev = flow;
   }
-  return true;
+  const min = store.sets[s].minFlow;
+  return min === undefined || minFlowFits(min, prev);
 }
 
 /** The ok and writable curve sets of a full-path result in a point store (the fast path's results come with one). */
@@ -198,6 +209,7 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
   const setModel = new Int32Array(good.length);
   const setSpeed = new Float64Array(good.length);
   const setImpeller = new Float64Array(good.length);
+  const setMinFlow = new Float64Array(good.length);
   const starts = new Int32Array(good.length + 1);
   let points = 0;
   for (const s of good) points += store.end(s) - store.starts[s];
@@ -223,13 +235,14 @@ export function planImport(analysis: Pick<StoredAnalysis, "mapping" | "result">)
     setModel[i] = m;
     setSpeed[i] = c.speed ?? NaN;
     setImpeller[i] = c.impellerDiameter ?? NaN;
+    setMinFlow[i] = c.minFlow ?? NaN;
     starts[i] = k;
     const a = store.starts[s], b = store.end(s);
     if (!all) values.set(store.values.subarray(a * POINT_WIDTH, b * POINT_WIDTH), k * POINT_WIDTH);
     k += b - a;
   });
   starts[good.length] = k;
-  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, starts, values, points, skipped: total - good.length };
+  return { mapping: analysis.mapping, models, setModel, setSpeed, setImpeller, setMinFlow, starts, values, points, skipped: total - good.length };
 }
 
 /** What the API answers about an upload: the mapping used, what was read, and every problem by line and column. */

@@ -12,7 +12,7 @@ import { withTransaction } from "@db/client.server";
 import { libraries, libraryRevisions, pumpModels, uploads } from "@db/schema";
 import { TRACE_CAUTION } from "../tracer/sniff";
 import { bulkLoad, bulkText, withoutKeyChecks } from "./bulk-load.server";
-import { planPart, pointLines, setLines, type ImportPlan, type Lines } from "./import-plan";
+import { planPart, pointLines, setLines, type ImportPlan, type Lines, type PlanPart } from "./import-plan";
 import type { ProgressSink } from "./import-progress.server";
 
 export type ImportResult = { revisionId: number; number: number; models: number; curves: number; points: number; skipped: number };
@@ -70,7 +70,7 @@ export async function writeImport(
       const workerSets = usable(plan.lines && (await plan.lines.sets), curves);
       const setPrefix = (i: number) => `${modelIds.get(plan.models[plan.setModel[i]].name.slice(0, 160))}\t${revisionId}`;
       const setText = workerSets ? () => withIds(workerSets, oneEach(curves), setPrefix, SETS_PER_PIECE) : () => linesHere(plan, "sets", setPrefix, SETS_PER_PIECE);
-      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count"], setText, curves);
+      await bulkLoad(conn, "curve_sets", ["model_id", "revision_id", "speed", "impeller_diameter", "flow_min", "flow_max", "head_max", "head_min", "point_count", "min_flow"], setText, curves);
       // Curve sets come back in insertion order (ascending id within this revision).
       // (plain rows as arrays: 10 000 ids without an object each)
       const setIds = ((await conn.query({ sql: "SELECT id FROM curve_sets WHERE revision_id = ? ORDER BY id", rowsAsArray: true }, [revisionId])) as [number][]).map((r) => r[0]);
@@ -100,7 +100,7 @@ const SETS_PER_PIECE = 2000;
  * held for long) — with `prefix(set)` put in front of each line by withIds, and the lines so far to `progress` after each piece.
  */
 export function* linesHere(
-  plan: Pick<ImportPlan, "starts" | "values" | "setSpeed" | "setImpeller">,
+  plan: PlanPart,
   part: "sets" | "points",
   prefix: (set: number) => string,
   perPiece: number,

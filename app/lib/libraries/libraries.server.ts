@@ -166,6 +166,8 @@ export type LibraryCurveSet = {
   impellerMin: number | null;
   impellerMax: number | null;
   ratedSpeed: number | null;
+  /** The maker's minimum continuous flow of this curve set, m³/s, as imported (null: none recorded). */
+  minFlow: number | null;
   points: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
 };
 
@@ -267,6 +269,7 @@ async function loadCurves(
       impellerMin: s.model.impellerMin,
       impellerMax: s.model.impellerMax,
       ratedSpeed: s.model.ratedSpeed,
+      minFlow: s.set.minFlow,
       points: [],
     });
   }

@@ -7,6 +7,7 @@ import {
   type AnalyseResult, type Decoded, type Encoding, type Mapping,
 } from "../import";
 import { firstCurveSets } from "../import/packed";
+import { minFlowList, withMinFlowColumns } from "./upload-min-flows";
 import { MAX_PROBLEMS_LISTED, problemErrors, problemLine, problemsSummary, readStoredDoc, type DocProblem, type DocWords } from "../projects/stored-doc";
 
 export const PROBLEM_ROWS_SHOWN = 300;
@@ -77,7 +78,9 @@ export function analyseStored(source: string | Uint8Array, lib: { mappingJson: s
   const d = decodedAs(undefined);
   const first = analyseCsv(d.text);
   const stored = readSavedMapping(lib.mappingJson);
-  const saved = savedMappingFor(lib, first.sniff.headers);
+  const fits = savedMappingFor(lib, first.sniff.headers);
+  // A maker's minimum flow column the saved mapping does not list is read (upload-min-flows.ts).
+  const saved = fits && withMinFlowColumns(fits, first.mapping);
   if (saved) {
     try {
       const ds = decodedAs(saved);
@@ -140,8 +143,9 @@ function flaggedRows(analysis: StoredAnalysis): { rows: FlaggedRow[]; total: num
 
 /**
  * What the mapping page needs, and no more: it is copied from the worker and sent to the browser, so
- * it stays small whatever the file's size (no per-curve list: counts are in `stats`; at most
- * PREVIEW_CURVES curves of at most PREVIEW_POINTS points, PROBLEM_ROWS_SHOWN problems, FLAGGED_ROWS_SHOWN rows).
+ * it stays small whatever the file's size (no list of every curve: counts are in `stats`; at most
+ * PREVIEW_CURVES curves of at most PREVIEW_POINTS points, PROBLEM_ROWS_SHOWN problems, FLAGGED_ROWS_SHOWN rows, and the
+ * maker's minimum flow of the first MIN_FLOW_CURVES_SHOWN curves with their source lines, upload-min-flows.ts).
  */
 export function summarise(analysis: StoredAnalysis) {
   const { result, sniff, mapping } = analysis;
@@ -159,6 +163,7 @@ export function summarise(analysis: StoredAnalysis) {
     stats: result.stats,
     problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
     problemCount: problems.length,
+    minFlows: minFlowList(analysis), // the first curves with their maker's minimum flow, for the page's editor
     preview: firstCurveSets(result, PREVIEW_CURVES).map((c) => ({
       id: c.key,
       label: `${curveName(c.model, c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,

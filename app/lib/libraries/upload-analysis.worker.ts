@@ -22,7 +22,7 @@ parentPort?.on("message", async ({ id, job, uploadId }: { id: number; job: Analy
     const out = runJob(job);
     // an import plan's arrays move to the main thread: keep what its LOAD DATA lines are made from
     const p = "plan" in out && out.plan ? out.plan : null;
-    const keep = p && { starts: p.starts.slice(), values: p.values.slice(), setSpeed: p.setSpeed.slice(), setImpeller: p.setImpeller.slice() };
+    const keep = p && { starts: p.starts.slice(), values: p.values.slice(), setSpeed: p.setSpeed.slice(), setImpeller: p.setImpeller.slice(), setMinFlow: p.setMinFlow.slice() };
     parentPort!.postMessage({ id, ok: true, out }, transferablesOf(out));
     // made while the main thread's transaction writes what comes before them (import-plan.ts Lines)
     if (keep)

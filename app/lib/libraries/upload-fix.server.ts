@@ -17,15 +17,16 @@ export function correctedName(filename: string): string {
 /**
  * Applies `edits` (only the cells that differ from the file are kept) to the upload's text as
  * decoded in `encoding` and stores the result (UTF-8) as a new upload. Returns its id, or null when
- * nothing changed.
+ * nothing changed. `extraColumns`: columns the edits may add after the header's last (the maker's
+ * minimum flow editor's, min-flow-form.ts).
  */
-export async function saveCorrectedUpload(viewer: Viewer, libraryId: number, uploadId: number, edits: CellEdit[], encoding?: Encoding): Promise<number | null> {
+export async function saveCorrectedUpload(viewer: Viewer, libraryId: number, uploadId: number, edits: CellEdit[], encoding?: Encoding, extraColumns = 0): Promise<number | null> {
   const { lib, upload } = await getUpload(viewer, libraryId, uploadId);
   const text = decodeBytes(upload.content, encoding).text;
   const sniff = sniffCsv(text);
   let corrected: string;
   try {
-    corrected = applyCellEdits(text, sniff.delimiter, edits, sniff.headers.length);
+    corrected = applyCellEdits(text, sniff.delimiter, edits, sniff.headers.length + extraColumns);
   } catch (e) {
     if (e instanceof EditRefused) throw new UploadRejected(`The corrections could not be applied: ${e.message}.`);
     throw e;

@@ -1,7 +1,6 @@
-// Load profile, control mode and life-cycle cost of a system's candidates (issue 17, items 3–4).
-// Pure: the server renders with it, the live preview and the selection report read its output.
-// The engine does the physics (app/engine/dutyCycle.ts, lifeCycleCost.ts); this file picks the
-// inputs out of the system document and the evaluated candidate.
+// Load profile, control mode and life-cycle cost of a system's candidates (issue 17, items 3–4). Pure: the server renders
+// with it, the live preview and the selection report read its output. The engine does the physics (app/engine/dutyCycle.ts,
+// lifeCycleCost.ts); this file picks the inputs out of the system document and the evaluated candidate (its maker's minimum flow too).
 import { currencyDigits } from "../shared/money";
 import * as v from "valibot";
 import {
@@ -33,6 +32,7 @@ import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from ".
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
+import { minFlowOnCycle } from "./verdict-min-flow";
 import type { SystemInput } from "./system-input";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
@@ -233,7 +233,7 @@ export function candidateEnergy(
       // A step needing no pump head names its cause with the system's parts on the design curve (the one the cycle runs on).
       const noHeadReason = (q: number) => noHeadClause(input, prepared, q, "this flow", {});
       const common = { systemHead: sysHead, designFlow, mode: mode.id, profile: prof.steps, density, driveEfficiency: drive, noHeadReason, maxSpeedRatio: overspeed,
-        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined };
+        fixedSpeedRatio: !mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 ? r.ratio : undefined, makerMinFlow: minFlowOnCycle(r, mode.vfd, c.adjustment.method) };
       // Pumps in parallel are staged by demand (engine dutyStaging.ts) on one pump's curve: the combined curve's flows and
       // powers shared equally (combinePumps); in series every duty pump runs at every step.
       if (c.adjustment.arrangement === "parallel" && pumps > 1) {

@@ -37,6 +37,7 @@ import { dutyCheckOf, noHeadClause, type DutyCheck } from "./duty-check";
 import { judgeOverload } from "./motor-overload";
 import { arrangementStartWarnings, parallelStaging } from "./arrangement-start";
 import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
+import { minFlowCheck, type MinFlowCheck } from "./verdict-min-flow";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
@@ -195,6 +196,8 @@ export type CandidateEvaluation = {
    * valve and deliver less than the verdict accepts (verdict-start.ts); [] when none. Absent in selections frozen before.
    */
   stagedStart?: StagedShortfall[];
+  /** The maker's minimum continuous flow against the duty each running pump takes (verdict-min-flow.ts); null without a figure, absent in selections frozen before. */
+  minFlow?: MinFlowCheck | null;
   /** ANSI/HI 9.6.7 parameter B of a custom liquid at one pump's water BEP (dimensionless); null for water or when unknown. */
   viscosityB: number | null;
   /**
@@ -217,7 +220,7 @@ const VERDICT_CAUTION_CODES = new Set(["dead-head", "unstable-crossing", "near-c
 /** A curve set on the system: adjusted (speed/trim, solved to the duty when asked), combined, solved, with figures. */
 export function evaluateCandidate(
   input: SystemInput,
-  set: { points: CurvePointsIn; speed: number | null; impellerDiameter: number | null },
+  set: { points: CurvePointsIn; speed: number | null; impellerDiameter: number | null; minFlow?: number | null },
   adj: Adjustment,
   opts: { catalogue?: CatalogueData | null; currency?: string } = {},
 ): CandidateEvaluation {
@@ -369,6 +372,7 @@ export function evaluateCandidate(
     npsh,
     verdict,
     stagedStart: stagedShortfalls(staged, input.duty?.flow, (input.flowTolerance ?? DEFAULT_FLOW_TOLERANCE).minus),
+    minFlow: minFlowCheck(set.minFlow, input.duty?.flow, adj, ratio),
     viscosityB: visc.b,
     viscosity: viscositySummary(visc),
     warnings: [...new Set(warnings)],

@@ -29,7 +29,7 @@ export function pumpsBasis(a: Arrangement): PumpsBasis | null {
 export const PER_PUMP_FIGURES: ReadonlySet<string> = new Set([
   "efficiency", "bep_ratio", "npsh_available", "npsh_required", "npsh_margin_ratio", "max_power_on_curve", "motor_non_overloading", "motor_overload_check", "motor_rating",
   "motor_rating_source", "motor_suggested", "motor_suggestion_basis", "motor_efficiency", "motor_efficiency_source", "drive_efficiency",
-  "shaft_power_per_pump", "electrical_input_per_pump",
+  "shaft_power_per_pump", "electrical_input_per_pump", "maker_min_flow", "maker_min_flow_as_run", "duty_flow_per_running_pump",
 ]);
 
 /** The CSV figures that are a total of the duty pumps. */

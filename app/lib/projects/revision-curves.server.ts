@@ -26,6 +26,8 @@ export type RevisionCurves = {
   impellerMin: Float64Array;
   impellerMax: Float64Array;
   ratedSpeed: Float64Array;
+  /** The maker's minimum continuous flow, m³/s (NaN: none recorded). */
+  minFlow: Float64Array;
   /** Set i's points are [off[i], off[i+1]) of the point columns, in their stored order. */
   off: Int32Array;
   flow: Float64Array;
@@ -70,6 +72,7 @@ export function curveSetAt(r: RevisionCurves, i: number): LibraryCurveSet {
     impellerMin: orNull(r.impellerMin[i]),
     impellerMax: orNull(r.impellerMax[i]),
     ratedSpeed: orNull(r.ratedSpeed[i]),
+    minFlow: orNull(r.minFlow[i]),
     points,
   };
 }
@@ -80,7 +83,7 @@ export async function readRevisionCurves(revisionId: number): Promise<RevisionCu
     .select({
       id: curveSets.id, modelId: pumpModels.id, model: pumpModels.name, type: pumpModels.type, nominalSize: pumpModels.nominalSize,
       speed: curveSets.speed, impellerDiameter: curveSets.impellerDiameter, impellerMin: pumpModels.impellerMin, impellerMax: pumpModels.impellerMax,
-      ratedSpeed: pumpModels.ratedSpeed, pointCount: curveSets.pointCount,
+      ratedSpeed: pumpModels.ratedSpeed, pointCount: curveSets.pointCount, minFlow: curveSets.minFlow,
     })
     .from(curveSets)
     .innerJoin(pumpModels, eq(pumpModels.id, curveSets.modelId))
@@ -92,12 +95,12 @@ export async function readRevisionCurves(revisionId: number): Promise<RevisionCu
   const r: Omit<RevisionCurves, "off" | "flow" | "head" | "efficiency" | "power" | "npshr" | "index" | "indexed"> = {
     revisionId, count: n, id: new Float64Array(n), modelId: new Float64Array(n), model: new Array(n), type: new Array(n), nominalSize: new Array(n),
     speed: new Float64Array(n), impellerDiameter: new Float64Array(n), impellerMin: new Float64Array(n), impellerMax: new Float64Array(n), ratedSpeed: new Float64Array(n),
-    position: new Map(),
+    minFlow: new Float64Array(n), position: new Map(),
   };
   sets.forEach((s, i) => {
     r.id[i] = s.id; r.modelId[i] = s.modelId; r.model[i] = intern(s.model); r.type[i] = intern(s.type); r.nominalSize[i] = intern(s.nominalSize);
     r.speed[i] = orNaN(s.speed); r.impellerDiameter[i] = orNaN(s.impellerDiameter); r.impellerMin[i] = orNaN(s.impellerMin); r.impellerMax[i] = orNaN(s.impellerMax);
-    r.ratedSpeed[i] = orNaN(s.ratedSpeed);
+    r.ratedSpeed[i] = orNaN(s.ratedSpeed); r.minFlow[i] = orNaN(s.minFlow);
     r.position.set(s.id, i);
   });
   // Points straight from the pool as arrays (hundreds of thousands of rows: no object per row), in set and seq order.

@@ -7,6 +7,7 @@ import type { Verdict } from "~/engine";
 import { evaluateCandidate, type CatalogueData, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
+import type { MinFlowCheck } from "./verdict-min-flow";
 import { arrangementAdjustment, severalPumps, type SearchArrangement } from "./search-arrangement";
 
 /**
@@ -25,10 +26,10 @@ export type JudgedSetting = {
 
 /**
  * What the search keeps of a pump judged as offered on the band: its verdict, its NPSH over the band's corners, the
- * cautions that qualify the verdict, its staged starts that leave the duty unmet (verdict-start.ts; pumps in parallel)
- * and what it judged.
+ * cautions that qualify the verdict, its staged starts that leave the duty unmet (verdict-start.ts; pumps in parallel),
+ * the maker's minimum flow against the duty (verdict-min-flow.ts; null without a figure) and what it judged.
  */
-export type Judged = { verdict: Verdict; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting };
+export type Judged = { verdict: Verdict; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; minFlow: MinFlowCheck | null; shown: JudgedSetting };
 
 /**
  * The row's verdict, or null where evaluateCandidate gives none or cannot evaluate the curve (the row keeps its search
@@ -56,7 +57,7 @@ export function judgeSearchRow(
     const perPump = op && s ? (s.arrangement === "parallel" ? { flow: op.flow / n, head: op.head } : { flow: op.flow, head: op.head / n }) : op;
     const shaftPower = f?.shaftPower ?? null;
     return {
-      verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [],
+      verdict: e.verdict, npsh: e.npsh, cautions: e.cautions ?? [], stagedStart: e.stagedStart ?? [], minFlow: e.minFlow ?? null,
       shown: { ratio: e.ratio, ratioNote: e.ratioNote, speed: e.speed, diameter: e.diameter, operatingPoint: op, perPump,
         efficiency: f?.efficiency ?? null, shaftPower, shaftPowerPerPump: shaftPower == null ? null : shaftPower / n, bepRatio: f?.bepRatio ?? null, inPor: f?.inPor ?? null },
     };

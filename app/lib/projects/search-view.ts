@@ -9,6 +9,7 @@ import type { NpshJudgement } from "./candidate-judgement";
 import { SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
+import { verdictMinFlowNote } from "./verdict-min-flow";
 
 /** The fields of a search result this view reads (a search result has more): the engine's ranked candidate plus the curve set. */
 export type SearchResultIn = Pick<
@@ -31,6 +32,8 @@ export type SearchResultIn = Pick<
   cautions?: string[];
   /** Staged starts of pumps in parallel that leave the duty unmet (verdict-start.ts `StagedShortfall[]`); absent or []: none. */
   stagedStart?: unknown;
+  /** The maker's minimum flow against the duty (verdict-min-flow.ts `MinFlowCheck`); absent or null: no figure. */
+  minFlow?: unknown;
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
   /** The operating point the figures are at (m³/s, m), null without one: the duty pumps' together for several. */
@@ -65,6 +68,8 @@ export type SearchResultView = {
    * another (duty/standby staging) the duty is not met: …"), or null (verdict-start.ts; null for one pump).
    */
   verdictStart: string | null;
+  /** A duty below the maker's minimum continuous flow ("but runs below the maker's minimum flow: 8.00 m³/h < 12.0 m³/h"), or null: no figure recorded, or at or above it (verdict-min-flow.ts). */
+  verdictMinFlow: string | null;
   /**
    * NPSH as the workbench judges it: { status, marginRatio (NPSHa/NPSHr), at (where it is decided), available (NPSHa there, m), rule,
    * unjudged (the points the rule names that could not be judged, each { at, why }: any of them leaves the status "unknown") }, or null.
@@ -111,6 +116,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     verdict: r.verdict ?? null,
     verdictNpsh: verdictNpshNote(r.verdict as { status: string } | null | undefined, r.npsh as NpshJudgement | null | undefined),
     verdictStart: verdictStartNote(r.verdict as { status: string } | null | undefined, r.stagedStart),
+    verdictMinFlow: verdictMinFlowNote(r.verdict as { status: string } | null | undefined, r.minFlow),
     npsh: r.npsh ? { status: r.npsh.status, marginRatio: r.npsh.marginRatio, at: r.npsh.at, available: r.npsh.available ?? null, rule: r.npsh.rule, unjudged: r.npsh.unjudged ?? [] } : null,
     figures: {
       operatingPoint: r.operatingPoint,

@@ -18,6 +18,7 @@ import { fmtNumExact } from "~/engine/quantityText";
 import { judgeSearchRow, type Judged, type JudgedSetting } from "./search-judge";
 import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, shareName, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
+import type { MinFlowCheck } from "./verdict-min-flow";
 import { catalogueOf, getSystem } from "./projects.server";
 import { LRUCache } from "lru-cache";
 import { promiseCache } from "../shared/promise-cache";
@@ -258,7 +259,7 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   // Ranks and reasons are written on copies: the engine's rows belong to this request only, but stay safe if that changes.
   const rows = upTo.map((k) => ({ ...k.row }));
   explainRanks(rows, kept.length, system.input.npshMargin, notes);
-  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, stagedStart, shown }, j) => ({
+  const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, stagedStart, minFlow, shown }, j) => ({
     ...rows[first + j],
     ...shownRow(rows[first + j], shown, system.input.duty!, arrangement),
     /** The arrangement every row is judged in (one pump, or pumps in parallel or series). */
@@ -279,13 +280,15 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     cautions,
     /** Pumps in parallel started one after another that leave the duty unmet (verdict-start.ts), as the candidate's result ([] for one pump). */
     stagedStart,
+    /** The maker's minimum flow against the duty each running pump takes (verdict-min-flow.ts), null without a figure. */
+    minFlow,
   }));
   return { system, results, locked, arrangement: { ...arrangement, searchedDuty: duty, rule: arrangementRule(system.input.duty, arrangement) }, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: plan, powerFilter, catalogueFilter, paging, message: null as string | null };
 }
 
 /** What `groupAndJudge` reads: the prepared search, library names, the workspace's own libraries, the kept verdicts, the system and the filters. */
 type Judging = { prepared: PreparedSearch; libraryName: Map<number, string>; own: Set<number>; verdicts: Map<string, Judged | null>; input: SystemInput; filters: SearchFilters };
-type Kept = { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; shown: JudgedSetting | null };
+type Kept = { row: EngineCandidate; set: IndexedSet; libraries: string[]; verdict: Verdict | null; npsh: NpshJudgement | null; cautions: string[]; stagedStart: StagedShortfall[]; minFlow: MinFlowCheck | null; shown: JudgedSetting | null };
 
 /**
  * The engine's rows grouped, one per distinct curve (the best-ranked copy stays, preferring the workspace's own library on
@@ -332,7 +335,7 @@ function groupAndJudge(j: Judging, res: SearchResult) {
       outsideCatalogue++;
       if (!filters.allowBeyondCatalogue) continue;
     }
-    kept.push({ row: g.row, set: g.set, libraries: g.libraries, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], shown: judged?.shown ?? null });
+    kept.push({ row: g.row, set: g.set, libraries: g.libraries, verdict, npsh: judged?.npsh ?? null, cautions: judged?.cautions ?? [], stagedStart: judged?.stagedStart ?? [], minFlow: judged?.minFlow ?? null, shown: judged?.shown ?? null });
   }
   const count: FillCount = { judged: judgedCount, kept: kept.length, groups: groups.size, returned: res.candidates.length, matched: res.stats.matched };
   return { kept, duplicates, outsideCatalogue, overPower, count };

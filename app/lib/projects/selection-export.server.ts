@@ -9,6 +9,7 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
 import { verdictStagedNpshNote } from "./verdict-staged-npsh";
+import { MIN_FLOW_RULE, readMinFlowCheck, verdictMinFlowNote } from "./verdict-min-flow";
 import { serviceFactorNote } from "./motor-service-factor";
 import { inSI } from "~/engine/quantityText";
 import { DEFAULT_FLOW_TOLERANCE, UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
@@ -57,10 +58,10 @@ export const SELECTION_JSON_FORMAT = "dutymark-selection-export/2";
  * Not exported: the record's internal ids (project, system, library, revision, curve set), who created it, workspaces.
  */
 export const SELECTION_JSON_KEYS = {
-  top: ["format", "reference", "title", "note", "createdAt", "frozenAt", "caution", "units", "verdict", "verdictNpsh", "verdictStart", "verdictMotor", "verdictStagedNpsh", "project", "system", "systemCurve", "pump", "adjustment", "result", "energy", "flowMax", "currency"],
+  top: ["format", "reference", "title", "note", "createdAt", "frozenAt", "caution", "units", "verdict", "verdictNpsh", "verdictStart", "verdictMotor", "verdictStagedNpsh", "verdictMinFlow", "project", "system", "systemCurve", "pump", "adjustment", "result", "energy", "flowMax", "currency"],
   project: ["name"],
   system: ["name", "input"],
-  pump: ["label", "model", "type", "size", "library", "speed", "impellerDiameter", "points"],
+  pump: ["label", "model", "type", "size", "library", "speed", "impellerDiameter", "minFlow", "points"],
   library: ["name", "revision", "traced"],
 } as const;
 
@@ -69,9 +70,10 @@ export const SELECTION_JSON_KEYS = {
  * caution and the units it is in, the verdict as the report's headline reads it — `verdict` (absent where the selection
  * was frozen before verdicts existed; null where no duty point was set), and what NPSH, a staged start and the motor check
  * say against it (`verdictNpsh`, `verdictStart`, `verdictMotor`, as the CSV's `verdict_npsh`, `verdict_start` and
- * `verdict_motor`; null: nothing) — then the frozen inputs and results (in SI, texts rendered in SI): the project's and
+ * `verdict_motor`; null: nothing), and a duty below the maker's minimum flow (`verdictMinFlow`, the CSV's `verdict_min_flow`)
+ * — then the frozen inputs and results (in SI, texts rendered in SI): the project's and
  * system's names, the system's inputs and curve, the pump as selected (its library by name and revision number, a traced
- * curve's source), the adjustment, the result, the energy over the duty cycle and the currency. Selections frozen before a
+ * curve's source, `minFlow` the maker's minimum continuous flow in m³/s, null: none recorded), the adjustment, the result, the energy over the duty cycle and the currency. Selections frozen before a
  * part existed export without it (null), as the report reads them.
  */
 export function selectionJson(s: { id: number; title: string; note: string; createdAt: Date }, frozen: FrozenSelection) {
@@ -80,6 +82,7 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
   const start = verdictStartNote(verdict, frozen.result.stagedStart);
   const motor = verdictMotorNote(verdict, frozen.result.figures);
   const stagedNpsh = verdictStagedNpshNote(verdict, frozen.energy?.cycle);
+  const minFlow = verdictMinFlowNote(verdict, frozen.result.minFlow);
   const { pump, system } = frozen;
   const library = pump.library ?? {};
   return {
@@ -93,13 +96,14 @@ export function selectionJson(s: { id: number; title: string; note: string; crea
     verdictStart: start ? inSI(start) : null,
     verdictMotor: motor ? inSI(motor) : null,
     verdictStagedNpsh: stagedNpsh ? inSI(stagedNpsh) : null,
+    verdictMinFlow: minFlow ? inSI(minFlow) : null,
     project: { name: frozen.project.name },
     system: { name: system.name, input: system.input },
     systemCurve: frozen.systemCurve,
     pump: {
       label: pump.label, model: pump.model, type: pump.type, size: pump.size,
       library: { name: library.name ?? null, revision: library.revision ?? null, traced: library.traced ?? null },
-      speed: pump.speed, impellerDiameter: pump.impellerDiameter, points: pump.points,
+      speed: pump.speed, impellerDiameter: pump.impellerDiameter, minFlow: pump.minFlow ?? null, points: pump.points,
     },
     adjustment: frozen.adjustment,
     result: resultRatiosShown(frozen.result), // no NPSH margin ratio where NPSHa ≤ 0 (npsh-ratio.ts), as the CSV
@@ -175,6 +179,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   add("verdict_motor", (() => { const n = verdictMotorNote(verdict, f.result.figures); return n ? inSI(n) : null; })(), "");
   // What NPSH at a duty-cycle step with fewer pumps in parallel running says against the verdict (step, pumps running, NPSHa, NPSHr, rule).
   add("verdict_staged_npsh", (() => { const n = verdictStagedNpshNote(verdict, f.energy?.cycle); return n ? inSI(n) : null; })(), "");
+  // A duty below the maker's minimum continuous flow (verdict-min-flow.ts), as on the report's verdict line, and its numbers.
+  add("verdict_min_flow", (() => { const n = verdictMinFlowNote(verdict, f.result.minFlow); return n ? inSI(n) : null; })(), "");
   add("verdict_rule", verdict?.rule, "");
   (verdict?.reasons ?? []).forEach((r, i) => add(`verdict_reason_${i + 1}`, r, ""));
   add("verdict_edge", verdict?.edge, "");
@@ -187,6 +193,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   add("shaft_power", fig?.shaftPower, "W");
   if (basis) add("shaft_power_per_pump", fig?.shaftPower != null ? fig.shaftPower / basis.n : null, "W");
   add("bep_ratio", fig?.bepRatio, "1");
+  minFlowFigures(f, add);
   add("npsh_available", fig?.npshAvailable, "m");
   add("npsh_required", fig?.npshRequired, "m");
   add("npsh_margin_ratio", ratioCell(fig?.npshMarginRatio, fig?.npshAvailable), "1");
@@ -287,6 +294,19 @@ function energySections(f: FrozenSelection, lines: unknown[][], basis: PumpsBasi
     lines.push(row(["section", "year", `energy_cost_${currency}`, `present_value_${currency}`, `cumulative_present_value_${currency}`]));
     lcc.yearly.forEach((y, i) => lines.push(row(["life_cycle_cost", y.year, y.energyCost, y.presentValue, lcc.cumulative[i + 1]])));
   }
+}
+
+/**
+ * The maker's minimum continuous flow: the figure as imported (blank: none recorded; "not recorded" for a selection frozen
+ * before it was kept), one pump's minimum as run (× the speed or trim ratio), the duty per running pump, and the rule.
+ */
+function minFlowFigures(f: FrozenSelection, add: (name: string, value: unknown, unit: string) => void) {
+  const c = readMinFlowCheck(f.result.minFlow);
+  const kept = f.result.minFlow !== undefined;
+  add("maker_min_flow", c ? c.published : kept ? null : "not recorded (selected before the maker's minimum flow was kept)", "m3/s");
+  add("maker_min_flow_as_run", c?.atPump ?? null, "m3/s");
+  add("duty_flow_per_running_pump", c?.dutyPerPump ?? null, "m3/s");
+  add("min_flow_rule", c ? MIN_FLOW_RULE : null, "");
 }
 
 /** A figure's basis for pumps in parallel or series: per pump, the duty pumps together, or "" where neither applies. */

@@ -59,6 +59,7 @@ export async function selectCandidate(viewer: Viewer, candidateId: number, title
       curveSetId: c.curveSetId,
       speed: cand.set.speed,
       impellerDiameter: cand.set.impellerDiameter,
+      minFlow: cand.set.minFlow, // the maker's minimum continuous flow as imported (null: none recorded)
       points: cand.set.points,
     },
     adjustment: cand.adjustment,

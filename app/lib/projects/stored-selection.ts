@@ -29,7 +29,8 @@ export type FrozenSelection = {
   project: { id: number; name: string };
   system: { id: number; name: string; input: SystemInput };
   systemCurve: ReturnType<typeof evaluateSystem> | null;
-  pump: { label: string; model: string; type: string; size: string; library: FrozenLibrary; curveSetId: number; speed: number | null; impellerDiameter: number | null; points: CurvePointsIn };
+  /** `minFlow`: the maker's minimum continuous flow of the curve set, m³/s (null: none recorded; absent in selections frozen before it was kept). */
+  pump: { label: string; model: string; type: string; size: string; library: FrozenLibrary; curveSetId: number; speed: number | null; impellerDiameter: number | null; minFlow?: number | null; points: CurvePointsIn };
   adjustment: Adjustment;
   result: ReturnType<typeof evaluateCandidate>;
   /** Duty-cycle energy and life-cycle cost (selections frozen before them have none). */
@@ -94,6 +95,8 @@ const Result = obj({
     /** The points the rule could not judge, with why (the report, the CSV's npsh_not_judged_at): absent in selections frozen before it was kept. */
     unjudged: v.optional(v.array(obj({ at: str, why: str }))),
   })),
+  /** The maker's minimum flow against the duty (verdict-min-flow.ts): null without a figure, absent in selections frozen before it was kept. */
+  minFlow: v.nullish(obj({ published: num, method: v.picklist(["none", "speed", "trim"]), ratio: num, atPump: num, dutyFlow: numOrNull, running: num, dutyPerPump: numOrNull, below: v.boolean() })),
   /** Absent in selections frozen before verdicts; null without a duty. */
   verdict: v.optional(v.nullable(obj({ status: v.picklist(VERDICT_STATUSES), rule: str, reasons: strings, edge: v.nullish(str) }))),
   warnings: strings,
@@ -129,7 +132,7 @@ export const FrozenSelectionSchema = obj({
   pump: obj({
     label: str, model: str, type: str, size: str,
     library: obj({ id: v.optional(num), name: v.optional(str), revision: v.optional(num), revisionId: v.optional(num), traced: v.nullish(obj({ source: str, caution: str })) }),
-    curveSetId: num, speed: numOrNull, impellerDiameter: numOrNull,
+    curveSetId: num, speed: numOrNull, impellerDiameter: numOrNull, minFlow: nullishNum,
     points: v.pipe(v.array(CurvePoint), v.minLength(2, "A pump curve needs at least 2 points.")),
   }),
   adjustment: AdjustmentSchema,
@@ -151,6 +154,7 @@ const LABELS: Record<string, string> = {
   reasons: "reasons", npsh: "NPSH over the band", energy: "energy over the duty cycle", cycle: "duty cycle", steps: "steps", lcc: "life-cycle cost",
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input", pumpsRunning: "pumps running", pumpShaftPower: "one pump's shaft power",
+  minFlow: "maker's minimum flow", published: "as published", atPump: "one pump's minimum as run", dutyPerPump: "duty per running pump", running: "pumps running", below: "below it",
   judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".

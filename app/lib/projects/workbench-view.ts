@@ -6,6 +6,7 @@ import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
 import { verdictMotorNote } from "./verdict-motor";
 import { verdictStagedNpshNote } from "./verdict-staged-npsh";
+import { verdictMinFlowNote } from "./verdict-min-flow";
 import { resultRatiosShown } from "./npsh-ratio";
 
 type EvaluatedCandidate = { id: number; curveSetId: number; label: string; library: string; adjustment: Adjustment; result: CandidateEvaluation | null; error: string | null; energy?: CandidateEnergy | null };
@@ -46,7 +47,8 @@ export function workbenchView(bench: {
  * verdict), its `result.verdictStart`, what starting pumps in parallel one after another says against it on the same line
  * (verdict-start.ts), with `result.stagedStart` (the numbers behind it, documented, [] where none), its `result.verdictMotor`,
  * what the motor check says against it (verdict-motor.ts: overloaded at the operating point, or can overload), its
- * `result.verdictStagedNpsh`, what NPSH at a staged duty-cycle step says against it (verdict-staged-npsh.ts), and no NPSH margin ratio
+ * `result.verdictStagedNpsh`, what NPSH at a staged duty-cycle step says against it (verdict-staged-npsh.ts), its `result.verdictMinFlow`,
+ * a duty below the maker's minimum continuous flow (verdict-min-flow.ts, with `result.minFlow` its numbers), and no NPSH margin ratio
  * where NPSHa ≤ 0 (figures, band, judged points: null, NPSHa beside it).
  */
 export function workbenchApiView(view: WorkbenchView) {
@@ -65,6 +67,9 @@ export function workbenchApiView(view: WorkbenchView) {
           verdictMotor: verdictMotorNote(r.verdict, r.figures),
           // NPSH at a duty-cycle step where fewer pumps in parallel run (verdict-staged-npsh.ts), on the same line.
           verdictStagedNpsh: verdictStagedNpshNote(r.verdict, c.energy?.cycle),
+          // A duty below the maker's minimum continuous flow (verdict-min-flow.ts), on the same line; result.minFlow: its numbers.
+          verdictMinFlow: verdictMinFlowNote(r.verdict, r.minFlow),
+          minFlow: r.minFlow ?? null,
           stagedStart: r.stagedStart ?? [],
         },
       };

@@ -1,0 +1,1 @@
+ALTER TABLE `curve_sets` ADD `min_flow` double;
