@@ -101,7 +101,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     })),
     modelId: selected?.model.id ?? null,
     modelName: selected?.model.name ?? "",
-    curves: (selected?.curves ?? []).map((c) => ({ id: c.id, speed: c.speed, impellerDiameter: c.impellerDiameter, points: c.points })), // what the page shows
+    curves: (selected?.curves ?? []).map((c) => ({ id: c.id, speed: c.speed, impellerDiameter: c.impellerDiameter, minFlow: c.minFlow ?? null, points: c.points })), // what the page shows (minFlow: the maker's minimum continuous flow, m³/s, or null)
     revisions: revisions.map((r) => ({ id: r.id, number: r.number, note: r.note, curves: r.curveCount, points: r.pointCount, skipped: r.skippedCount, at: r.createdAt.toISOString() })),
     pending: pending.map((p) => ({ ...p, createdAt: p.createdAt.toISOString() })),
     imported: query.imported,
@@ -254,6 +254,12 @@ export default function LibraryPage() {
                         <>
                           <span className="sr-only">Points of {d.modelName} </span>
                           {label}
+                          {c.minFlow != null ? (
+                            <>
+                              {" "}
+                              <span className="block font-normal text-slate-600">Maker&apos;s minimum continuous flow: {fmtFlow(d.unitSystem, c.minFlow)}</span>
+                            </>
+                          ) : null}
                         </>
                       );
                       return (
