@@ -3,8 +3,9 @@
 // and electrical input per pump and for the duty pumps together, the largest power on the curve and the motor per pump
 // (lib/projects/power-basis.ts); a single pump's figures read as they always did. All inputs SI; shown in the reader's units.
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
+import type { FlowTolerance } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQAboveZero, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
-import { bepPositionText, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
+import { bandFlowText, bepPositionText, dutyFlowLimits, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
@@ -90,8 +91,18 @@ const opHours = (view: WorkbenchView) => {
 };
 
 /** Side-by-side figures of the candidates at their operating points. */
-export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchView; unitSystem: UnitChoice; actions?: (c: Cand) => React.ReactNode }) {
+export function CandidateTable({ view, unitSystem, actions, duty, tolerance, currency = "" }: {
+  view: WorkbenchView;
+  unitSystem: UnitChoice;
+  actions?: (c: Cand) => React.ReactNode;
+  /** The duty and its tolerance the verdicts were judged on: the band's flows are written apart from their limits. */
+  duty?: { flow: number } | null;
+  tolerance?: FlowTolerance;
+  /** The page's currency (the workspace's, or the selection's as frozen), for money where no candidate's figures name one. */
+  currency?: string;
+}) {
   if (view.candidates.length === 0) return null;
+  const limits = dutyFlowLimits(duty?.flow, tolerance);
   const rows: [string, (c: Cand) => React.ReactNode][] = [
     ["Library", (c) => c.library],
     ["Adjustment", (c) => adjustmentText(c, unitSystem, true).replace(/^ \(|\)$/g, "") || "as published"],
@@ -100,7 +111,8 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     ["Operating head (design curve)", (c) => fmtHead(unitSystem, c.result?.operating?.head)],
     ["Crossing", (c) => (c.error ? "—" : c.result?.operating?.flow === 0 ? <span className="text-duty-ink">{deadHeadText(unitSystem, c.result.operating.head)}</span> : c.result?.status === "ok" ? "one crossing" : <span className="text-duty-ink">{c.result?.message}</span>)],
     ["Band edges", (c) => (c.result?.band?.length ? c.result.band.map((b) => b.edge).join(" – ") : "—")],
-    ["Flow over the band", (c) => <span data-testid={`band-flow-${c.id}`}>{range(c.result?.band, (b) => b.flow, (x) => fmtFlow(unitSystem, x))}</span>],
+    // Each edge's flow apart from the duty and its tolerance's limits: the demanding edge's decides the verdict above it.
+    ["Flow over the band", (c) => <span data-testid={`band-flow-${c.id}`}>{range(c.result?.band, (b) => b.flow, (x) => bandFlowText(unitSystem, x, limits))}</span>],
     ["Head over the band", (c) => range(c.result?.band, (b) => b.head, (x) => fmtHead(unitSystem, x))],
     ["Efficiency over the band", (c) => range(c.result?.band, (b) => b.efficiency, (x) => fmtPct(x))],
     ["Shaft power over the band", (c) => bandPowerText(c.result?.band, basisOf(c), unitSystem)],
@@ -177,8 +189,9 @@ export function CandidateTable({ view, unitSystem, actions }: { view: WorkbenchV
     // At the design operating point for every running hour (hoursPerYear); the duty cycle's rows below spread the hours over part loads.
     // Each label names the hours its figures count: the operating point's (the system's operating hours), the duty cycle's (its steps' hours).
     [`Energy per year at the operating point${opHours(view)} (electrical, every running hour there)`, (c) => (c.result?.figures?.annualEnergyKWh != null ? `${amountText(c.result.figures.annualEnergyKWh)} kWh${forAll(c)}` : "—")],
-    [`Energy cost per year at the operating point${opHours(view)}`, (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency ?? "")}${forAll(c)}` : moneyText(null, ""))],
-    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency ?? "", cycleHoursText(view.candidates.map((c) => c.energy?.cycle))),
+    [`Energy cost per year at the operating point${opHours(view)}`, (c) => (c.result?.figures?.annualCost != null ? `${moneyText(c.result.figures.annualCost, c.result.figures.motor?.currency || currency)}${forAll(c)}` : moneyText(null, ""))],
+    // Money in the figures' currency, else the page's: a candidate without an operating point has no figures to name one.
+    ...energyRows(view.candidates.find((c) => c.result?.figures?.motor?.currency)?.result?.figures?.motor.currency || currency, cycleHoursText(view.candidates.map((c) => c.energy?.cycle))),
   ];
   return (
     <div className="overflow-x-auto">

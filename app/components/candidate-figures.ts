@@ -1,7 +1,7 @@
 // The candidates table's figures that sit beside a status they decide (POR, NPSH), as text in the
 // reader's units: each never reads as the limit it was judged against (DEVELOPERS.md, "What the
 // product concludes at the edges"). Pure; used by CandidateTable in ./CandidateTable.tsx and the search page's rows.
-import { POR_FRACTION } from "~/engine";
+import { DEFAULT_FLOW_TOLERANCE, POR_FRACTION, type FlowTolerance } from "~/engine";
 import { fmtPct, fmtPctExact, fmtQAboveZero, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 import { marginRatioText } from "~/lib/projects/npsh-ratio";
 import type { NpshJudgement } from "~/lib/projects/candidate-judgement";
@@ -103,3 +103,33 @@ export function npshJudgedRange(n: NpshJudgement | null | undefined): string | n
   const [a, b] = [npshMarginText(lo, n?.requiredMargin), npshMarginText(hi, n?.requiredMargin)];
   return a === b ? a : `${a} – ${b}`;
 }
+
+/**
+ * The flows the verdict judges a band edge's flow against (engine verdict.ts): duty × (1 − minus), the duty itself and
+ * duty × (1 + plus), m³/s; none without a duty.
+ * @param dutyFlow the duty flow, m³/s (null: no duty set)
+ * @param tolerance the duty flow tolerance (fractions; absent: the default −0 %/+10 %)
+ */
+export function dutyFlowLimits(dutyFlow: number | null | undefined, tolerance: FlowTolerance | undefined): number[] {
+  if (dutyFlow == null || !Number.isFinite(dutyFlow)) return [];
+  const t = tolerance ?? DEFAULT_FLOW_TOLERANCE;
+  return [dutyFlow * (1 - t.minus), dutyFlow, dutyFlow * (1 + t.plus)];
+}
+
+/**
+ * A band edge's operating flow beside the verdict it decides: with the decimals it needs not to read as the duty or a
+ * limit of its tolerance ("42.35 m³/h" beside "short of the duty" of 42.36 m³/h, never "42.4 m³/h" as the duty prints).
+ * @param units the reader's units
+ * @param flow the edge's operating flow, m³/s (null: no operating point there)
+ * @param limits `dutyFlowLimits`, m³/s
+ */
+export const bandFlowText = (units: UnitChoice, flow: number | null | undefined, limits: readonly number[]): string => fmtQExact(units, "flow", flow, limits);
+
+/**
+ * The duty flow beside the band's flows judged against it (the report's "Duty point"): with the decimals it needs not to
+ * read as any of them, as a limit (no trailing zeros gained for this).
+ * @param units the reader's units
+ * @param dutyFlow the duty flow, m³/s
+ * @param bandFlows the band edges' operating flows, m³/s
+ */
+export const dutyFlowText = (units: UnitChoice, dutyFlow: number, bandFlows: readonly (number | null | undefined)[]): string => fmtQExact(units, "flow", dutyFlow, bandFlows, true);

@@ -5,7 +5,7 @@
  * that of one pump at its own flow (parallel) or of the first pump (series).
  */
 import { EngineInputError, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
+import { createPumpCurve, ensurePumpCurve, POR_FRACTION, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 
 /**
  * Most duty pumps, and most standby pumps, of one arrangement (count; engine bound). The project form takes 1–8 duty
@@ -62,6 +62,17 @@ export function combinePumps(curve: PumpCurve | PumpCurveInput, arrangement: Arr
   });
   const combined = createPumpCurve({ points, speed: c.speed ?? undefined, impellerDiameter: c.impellerDiameter ?? undefined,
     minDiameter: c.minDiameter ?? undefined, maxDiameter: c.maxDiameter ?? undefined, powerDensity: c.powerDensity, riseTolerance: 1 });
+  // The pumps' BEP is one pump's moved with the points (flow × n in parallel, head × n in series), never read again off
+  // the combined points: the same point for a published curve (efficiency is unchanged point by point), and the BEP a
+  // caller gave the one pump's curve (a curve rebuilt from samples carrying its figures' BEP, projects/cycle-curve.ts).
+  if (c.bep) {
+    const bep = mode === "parallel" ? { ...c.bep, flow: c.bep.flow * n } : { ...c.bep, head: c.bep.head * n };
+    combined.bep = bep;
+    combined.por = { min: POR_FRACTION.min * bep.flow, max: POR_FRACTION.max * bep.flow };
+  } else {
+    combined.bep = null;
+    combined.por = null;
+  }
   const warnings: EngineWarning[] = [];
   if (standby > 0) warnings.push({ code: "standby-not-counted", message: `${standby} standby pump(s) installed; only the ${n} duty pump(s) count` });
   return { curve: combined, running: n, installed: n + standby, warnings };

@@ -7,6 +7,7 @@ import { readId } from "~/lib/shared/forms.server";
 import { minFlowNoteOf, motorNoteOf, npshNoteOf, stagedNpshNoteOf, RunTable, startNoteOf, SizingCaution, SystemWarnings, VerdictView, WorkbenchChart } from "~/components/workbench";
 import { CandidateTable, deadHeadText } from "~/components/CandidateTable";
 import { ReportMethods } from "~/components/ReportMethods";
+import { dutyFlowText } from "~/components/candidate-figures";
 import { EDITOR_FITTINGS } from "~/lib/projects/system-form";
 import { PrintButton } from "~/components/PrintButton";
 import { SelectionEnergy } from "~/components/SelectionEnergy";
@@ -104,7 +105,8 @@ export default function SelectionReport() {
           <h2 className="font-semibold">Duty and result</h2>
           <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
             <dt className="text-slate-600">Duty point</dt>
-            <dd>{input.duty ? `${fmtFlow(sys, input.duty.flow)} at ${fmtHead(sys, input.duty.head)}` : "not set"}</dd>
+            {/* The duty flow apart from the band's flows judged against it (the figures table's "Flow over the band"). */}
+            <dd>{input.duty ? `${dutyFlowText(sys, input.duty.flow, (f.result.band ?? []).map((b) => b.flow))} at ${fmtHead(sys, input.duty.head)}` : "not set"}</dd>
             <dt className="text-slate-600">Operating point (design curve)</dt>
             <dd className="font-semibold" data-testid="report-operating">
               {f.result.operating
@@ -174,7 +176,7 @@ export default function SelectionReport() {
 
       <section className="panel break-inside-avoid print-two-columns">
         <h2 className="font-semibold">Figures at the operating point</h2>
-        <CandidateTable view={view} unitSystem={sys} />
+        <CandidateTable view={view} unitSystem={sys} duty={input.duty} tolerance={input.flowTolerance} currency={currency} />
       </section>
 
       <SelectionEnergy c={view.candidates[0]} unitSystem={sys} currency={currency} />

@@ -138,6 +138,8 @@ export default function SystemPage() {
   };
   const view = (draft && live) || d.view;
   const draftInput = useMemo(() => (draft ? JSON.parse(draft) : d.input), [draft, d.input]);
+  // The inputs the view shown was computed on (the live preview's, else the stored): its duty and tolerance judged the verdicts.
+  const viewInput: typeof d.input = draft && live ? draftInput : d.input;
   // The stored inputs' problems stand beside the fields until the form is read again (typing, or a save refused).
   const storedErrors = d.review && !typed && !Object.keys(a?.errors ?? {}).length ? d.review.fields : {};
   const errors = { ...storedErrors, ...(a?.errors ?? {}), ...liveErrors };
@@ -199,6 +201,9 @@ export default function SystemPage() {
                   <CandidateTable
                     view={view}
                     unitSystem={d.unitSystem}
+                    duty={viewInput.duty}
+                    tolerance={viewInput.flowTolerance}
+                    currency={d.currency}
                     actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
                   />
                 )}

@@ -6,7 +6,6 @@ import * as v from "valibot";
 import {
   CIRCULATOR_PROFILE_SOURCE,
   CONTROL_MODES,
-  createPumpCurve,
   DEFAULT_DRIVE_EFFICIENCY,
   defaultCirculatorProfile,
   dutyCycleEnergy,
@@ -17,14 +16,12 @@ import {
   MAX_FLOW_FRACTION,
   PART_LOAD_SOURCE,
   prepareSystem,
-  scaleBySpeed,
   COUNTED_STEP_STATUSES,
   systemHeadFunction,
   type ControlMode,
   type DutyCycleResult,
   type DutyStep,
   type LifeCycleResult,
-  type PumpCurve,
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
@@ -33,6 +30,7 @@ import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import { minFlowOnCycle } from "./verdict-min-flow";
+import { cycleCurves } from "./cycle-curve";
 import type { SystemInput } from "./system-input";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
@@ -159,7 +157,8 @@ type EvaluatedLike = {
     ratio: number;
     curve: { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null }[];
     operating: { flow: number; head: number } | null;
-    figures: { motor: { rating: number | null; efficiency: number | null } } | null;
+    /** bepFlow, bepHead: the BEP the figures name, which the cycle's POR notes judge against (cycle-curve.ts). */
+    figures: { motor: { rating: number | null; efficiency: number | null }; bepFlow?: number | null; bepHead?: number | null } | null;
     /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
     viscosityB?: number | null;
     viscosity?: { status: string } | null;
@@ -209,22 +208,11 @@ export function candidateEnergy(
   else if (designFlow == null) out.cycleError = "no duty flow: no duty cycle";
   else {
     try {
-      let curve = createPumpCurve({
-        points: r.curve.map((p) => {
-          const o: { flow: number; head: number; efficiency?: number; power?: number; npshr?: number } = { flow: p.flow, head: p.head };
-          if (p.efficiency != null) o.efficiency = p.efficiency;
-          if (p.power != null) o.power = p.power;
-          if (p.npshr != null && p.npshr > 0) o.npshr = p.npshr; // staged steps' NPSH (staging-npsh.ts); no energy figure uses it
-          return o;
-        }),
-        powerDensity: density,
-        riseTolerance: 1,
-      });
-      // A VFD may run up to the pump's full speed, or up to the candidate's set speed where it is set above its curve's
-      // (a typed ratio up to 1.2, the speed its own figures meet the duty at): undo a speed setting of the candidate
-      // (affinity laws), so speeds are fractions of the curve's speed.
+      // The curve as set, and one pump's in parallel, with the figures' BEP (cycle-curve.ts). A VFD may run up to the pump's
+      // full speed, or up to the candidate's set speed where it is set above its curve's (a typed ratio up to 1.2, the speed
+      // its own figures meet the duty at): a speed setting is undone (affinity laws), so speeds are fractions of the curve's speed.
+      const { curve, one } = cycleCurves({ adjustment: c.adjustment, result: r }, density, mode.vfd);
       const overspeed = mode.vfd && c.adjustment.method === "speed" && r.ratio > 1 ? r.ratio : undefined;
-      if (mode.vfd && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1) curve = scaleBySpeed(curve, 1 / r.ratio).curve;
       if (overspeed) out.assumptions.push(`The drive runs the pump up to the candidate's set speed, ${fmtPct(overspeed)} of its curve's (the speeds of the duty cycle are fractions of the curve's speed).`);
       const pumps = c.adjustment.arrangement === "single" ? 1 : c.adjustment.dutyPumps;
       const drive = mode.vfd || c.adjustment.method === "speed" ? DEFAULT_DRIVE_EFFICIENCY : null;
@@ -238,11 +226,10 @@ export function candidateEnergy(
       // powers shared equally (combinePumps); in series every duty pump runs at every step.
       if (c.adjustment.arrangement === "parallel" && pumps > 1) {
         out.assumptions.push(`${PARALLEL_STAGING_RULE}.`);
-        const one = onePump(curve, pumps, density);
-        out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: one, dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
+        out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: one!, dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
         // One pump alone at the larger share Q/k needs more NPSH: judged at each step with fewer pumps running.
         if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null)
-          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin }));
+          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one!, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin }));
       } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, arrangement: c.adjustment.arrangement === "series" && pumps > 1 ? "series" : undefined });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);
@@ -264,12 +251,6 @@ export function candidateEnergy(
     }
   }
   return out;
-}
-
-/** One of n identical pumps in parallel from their combined curve: flow and power ÷ n at equal head (multiple.ts, inverted). */
-function onePump(combined: PumpCurve, n: number, density: number): PumpCurve {
-  const points = combined.points.map((p) => ({ ...p, flow: p.flow / n, ...(p.power !== undefined ? { power: p.power / n } : {}) }));
-  return createPumpCurve({ points, powerDensity: density, riseTolerance: 1 });
 }
 
 /**
