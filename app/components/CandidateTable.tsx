@@ -14,6 +14,7 @@ import { serviceFactorNote } from "~/lib/projects/motor-service-factor";
 import { adjustmentText, minFlowNoteOf, motorNoteOf, NOT_JUDGED, npshNoteOf, stagedNpshNoteOf, startNoteOf, VerdictView } from "./workbench";
 import { minFlowAsRun, MIN_FLOW_RULE, readMinFlowCheck } from "~/lib/projects/verdict-min-flow";
 import { perPumpPowerText, totalPowerText } from "./power-text";
+import { npshrGapClauses } from "~/lib/projects/npshr-reach";
 
 type Cand = WorkbenchView["candidates"][number];
 
@@ -146,9 +147,12 @@ export function CandidateTable({ view, unitSystem, actions, duty, tolerance, cur
       const f = c.result?.figures;
       if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQAboveZero(unitSystem, "head", f.npshAvailable)}, at or below zero (cavitation-risk)</span>;
       if (f?.npshMarginRatio != null) return <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span>;
-      // NPSHa above zero and no NPSHr there: nothing was checked, said so with the flow (decision "npshzero"), never a bare dash.
+      // NPSHa above zero and no NPSHr there: nothing was checked, said so with the flow (decision "npshzero") and where the
+      // NPSHr curve stops, or its one point (npshr-reach.ts, decision "npshone"), never a bare dash.
       const q = c.result?.operating?.flow;
-      return f?.npshAvailable != null && f.npshRequired == null && q != null ? <span className="font-semibold text-duty-ink">not checked: the curve publishes no NPSHr at {fmtFlow(unitSystem, q)}</span> : "—";
+      if (!(f?.npshAvailable != null && f.npshRequired == null && q != null)) return "—";
+      const design = c.result?.npsh?.judgedAt?.find((p) => p.at === "design point") ?? { at: "design point", flow: q };
+      return <span className="font-semibold text-duty-ink">not checked: {renderUnits(npshrGapClauses(c.result?.npsh?.npshrPublished, [design], false).join("; "), unitSystem)}</span>;
     }],
     ["Largest power on curve", (c) => (c.result?.figures?.motorLimit != null && c.result.figures.maxPower != null ? `${fmtQExact(unitSystem, "power", c.result.figures.maxPower, [c.result.figures.motorLimit])}${basisOf(c) ? " per pump" : ""}` : perPumpPowerText(unitSystem, c.result?.figures?.maxPower, basisOf(c)))], // apart from the motor's limit beside it
     ["Motor", (c) => {

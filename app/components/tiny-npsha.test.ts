@@ -1,12 +1,13 @@
 // NPSHa just above zero (1e-15 m: a suction a hair above the liquid's boiling) printed by the tiny-number rule, "1.00e-15 m"
 // beside NPSHr and "0.000000000000001 m" beside zero: correct but unreadable, as the ratio was before "< 0.01"
-// (tiny-ratio.test.ts). Now NPSHa above zero and below the 0.001 its unit shows at three decimals reads "< 0.001 m" ("< 0.001
-// ft" in US units), on every surface that prints it as text: the candidates table's NPSHa / NPSHr row (system page and
+// (tiny-ratio.test.ts). Now NPSHa above zero that the unit's three decimals would show as 0.000 reads "< 0.001 m" ("< 0.001
+// ft" in US units; below 0.0005 in the unit shown since decision "npshone", which made a hair below zero read "below 0 m":
+// npsha-below-zero.test.ts), on every surface that prints it as text: the candidates table's NPSHa / NPSHr row (system page and
 // report), the band's points (table and search row), the verdict's NPSH qualifier, the engine's cavitation warning, the
-// search page's count of pumps left out for NPSH, a staged step's NPSH warning, the chart's readout and table view. At 0.001 in the unit shown and above, as
-// before; at or below zero, as before (NPSHa is then said "at or below zero"). CSV and JSON keep the number.
-// Check values: 1e-15 m and 1 ft = 0.3048 m (exact, by definition), so 0.001 ft = 0.0003048 m; NPSHr 2.25 m is made up;
-// the floor 0.001 is the three decimals the magnitude rule shows below 1 (quantityText.ts `decimalsFor`).
+// search page's count of pumps left out for NPSH, a staged step's NPSH warning, the chart's readout and table view. From
+// 0.0005 in the unit shown up it prints as a number ("0.001 m"); zero as before. CSV and JSON keep the number.
+// Check values: 1e-15 m and 1 ft = 0.3048 m (exact, by definition), so 0.0005 ft = 0.0001524 m; NPSHr 2.25 m is made up;
+// 0.001 is the three decimals the magnitude rule shows below 1 (quantityText.ts `decimalsFor`), and 0.0005 rounds to it.
 import { describe, expect, it } from "vitest";
 import Papa from "papaparse";
 import { createPumpCurve, operatingFigures } from "~/engine";
@@ -35,20 +36,22 @@ const unjudged = (a: number): NpshJudgement => ({
   judgedAt: [{ at: "design point", flow: 0.03, available: a, required: null, marginRatio: null }], unjudged: [{ at: "design point", why: "no NPSHr at that flow" }],
 } as NpshJudgement);
 
-describe("NPSHa above zero and below 0.001 in the unit shown reads '< 0.001'", () => {
+describe("NPSHa above zero that three decimals in the unit shown read as zero reads '< 0.001'", () => {
   it("the NPSHa / NPSHr row: '< 0.001 m / 2.25 m' (was '1.00e-15 m / 2.25 m'), US '< 0.001 ft / 7.38 ft'", () => {
     expect(npshPairText(SI_UNITS, 1e-15, NPSHR)).toBe("< 0.001 m / 2.25 m");
     expect(npshPairText(US_UNITS, 1e-15, NPSHR)).toBe("< 0.001 ft / 7.38 ft"); // 2.25 / 0.3048 = 7.38
   });
-  it("flips at the floor: 0.000999 m '< 0.001 m', 0.001 m '0.001 m'; in ft at 0.001 ft (0.0003048 m)", () => {
-    expect(npshPairText(SI_UNITS, 0.000999, NPSHR)).toBe("< 0.001 m / 2.25 m");
+  it("flips where three decimals stop reading it as zero: 0.0004995 m '< 0.001 m', 0.0005005 m '0.001 m'; in ft at 0.0005 ft (0.0001524 m)", () => {
+    expect(npshPairText(SI_UNITS, 0.0005 * (1 - 1e-3), NPSHR)).toBe("< 0.001 m / 2.25 m");
+    expect(npshPairText(SI_UNITS, 0.0005 * (1 + 1e-3), NPSHR)).toBe("0.001 m / 2.25 m"); // decision "npshone" (was '< 0.001 m' up to 0.001 m)
     expect(npshPairText(SI_UNITS, 0.001, NPSHR)).toBe("0.001 m / 2.25 m");
-    expect(npshPairText(US_UNITS, 0.001 * FT * (1 - 1e-9), NPSHR)).toBe("< 0.001 ft / 7.38 ft");
-    expect(npshPairText(US_UNITS, 0.001 * FT * (1 + 1e-9), NPSHR)).toBe("0.001 ft / 7.38 ft");
+    expect(npshPairText(US_UNITS, 0.0005 * FT * (1 - 1e-9), NPSHR)).toBe("< 0.001 ft / 7.38 ft");
+    expect(npshPairText(US_UNITS, 0.0005 * FT * (1 + 1e-9), NPSHR)).toBe("0.001 ft / 7.38 ft");
   });
-  it("zero and below are as before (said at or below zero elsewhere), never '< 0.001'", () => {
+  it("zero as before, below zero a number or 'below 0 m' (said at or below zero elsewhere), never '< 0.001'", () => {
     expect(npshPairText(SI_UNITS, 0, NPSHR)).toBe("0.000 m / 2.25 m");
     expect(npshPairText(SI_UNITS, -0.25, NPSHR)).toBe("-0.250 m / 2.25 m");
+    expect(npshPairText(SI_UNITS, -1e-15, NPSHR)).toBe("below 0 m / 2.25 m");
   });
   it("the band's points where NPSHr is unknown (table cell's title) and the lowest where NPSHa decides", () => {
     expect(npshPointsText(SI_UNITS, unjudged(1e-15))).toBe("design point NPSHa < 0.001 m"); // was "NPSHa 0.000000000000001 m"
@@ -80,7 +83,7 @@ describe("NPSHa above zero and below 0.001 in the unit shown reads '< 0.001'", (
   it("a token for a reading judged by its side of zero carries its mark even with nothing to read apart from", () => {
     expect(renderUnits(qtAboveZero("head", 1e-15, []), SI_UNITS)).toBe("< 0.001 m");
     expect(renderUnits(qtAboveZero("head", 1.2345, []), SI_UNITS)).toBe("1.23 m");
-    expect(renderUnits(qtAboveZero("head", -1e-15, []), SI_UNITS)).toBe(renderUnits(`⟦head|${-1e-15}|0⟧`, SI_UNITS)); // below zero as before
+    expect(renderUnits(qtAboveZero("head", -1e-15, []), SI_UNITS)).toBe("below 0 m"); // a hair below zero (decision "npshone"; it printed its digits)
   });
 });
 
@@ -100,10 +103,11 @@ describe("a selection at NPSHa 1e-15 m above zero: the CSV keeps the number", ()
   });
 });
 
-describe("the chart's readout and table view: NPSHa above zero and below 0.001 reads '< 0.001' (it read '0.000', as at zero)", () => {
-  it("the value rule, flipping at 0.001 in the chart's unit; zero and below as before", () => {
+describe("the chart's readout and table view: NPSHa above zero that three decimals show as zero reads '< 0.001' (it read '0.000', as at zero)", () => {
+  it("the value rule, flipping at 0.0005 in the chart's unit; zero and below as before", () => {
     expect(formatNpshaValue(1e-15)).toBe("< 0.001");
-    expect(formatNpshaValue(0.000999)).toBe("< 0.001");
+    expect(formatNpshaValue(0.0004999)).toBe("< 0.001");
+    expect(formatNpshaValue(0.0005001)).toBe("0.001"); // decision "npshone" (0.000999 read '< 0.001')
     expect(formatNpshaValue(0.001)).toBe("0.001");
     expect(formatNpshaValue(0)).toBe("0");
     expect(formatNpshaValue(-0.25)).toBe("-0.250");

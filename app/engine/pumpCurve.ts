@@ -149,6 +149,12 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
   return { headMax, drooping: headMax > h0 * (1 + 1e-9) };
 }
 
+/**
+ * One optional column's interpolant over the points that give it; null from fewer than two. One point is no curve: a
+ * value at one flow says nothing of another (the efficiency or power "at one point only" note, figures.ts), and a single
+ * published NPSHr point is judged nowhere, not even at its own flow — the search's index builds none from it either
+ * (searchIndex.ts `PackBuilder.end`; decision "npshone", app/lib/projects/npshr-reach.ts).
+ */
 function column(points: readonly PumpPoint[], key: "efficiency" | "power" | "npshr"): MonotoneCubic | null {
   const xs: number[] = [], ys: number[] = [];
   for (const p of points) {

@@ -22,10 +22,24 @@ const LIMIT_MARK = "limit:";
 /** Marks a {@link qtAboveZero} token (a reading judged by its side of zero), before the values it reads apart from. */
 const ZERO_MARK = "zero:";
 /**
- * A reading judged by its side of zero (NPSHa) above zero yet below this in the unit shown reads "< 0.001 m": the three
- * decimals the magnitude rule gives below 1 would show it as 0.000, which is how NPSHa at zero reads (decision "npshzero").
+ * The smallest step the magnitude rule shows below 1 (three decimals), in the unit shown: a reading judged by its side of
+ * zero (NPSHa) that those decimals would show as zero though it is not reads "< 0.001 m" above zero (decision "npshzero").
  */
 export const NEAR_ZERO_FLOOR = 0.001;
+
+/**
+ * What a reading judged by its side of zero (NPSHa: at or below zero the liquid boils at the pump's inlet, whatever the
+ * pump) reads as where the magnitude rule's three decimals would round it to zero though it is not — |v| below 0.0005 in
+ * the unit shown: "< 0.001" above zero, "below 0" below it; null elsewhere (zero itself, and every value the decimals
+ * tell from zero, print as numbers: 0.0005 m reads "0.001 m", −0.0005 m "-0.001 m"). One rule for both sides and every
+ * unit (decision "npshone"): a hair below zero printed its digits ("-0.000001 m") where a hair above read "< 0.001 m",
+ * and a signed zero ("-0.000 m") would read as zero, which NPSHa below zero is not.
+ * @param v the reading in the unit shown (m or ft)
+ */
+export function nearZeroWords(v: number): string | null {
+  if (v === 0 || !Number.isFinite(v) || Number(v.toFixed(3)) !== 0) return null;
+  return v > 0 ? `< ${NEAR_ZERO_FLOOR}` : "below 0";
+}
 
 /**
  * A quantity token for text: `⟦flow|0.0111⟧`.
@@ -59,9 +73,10 @@ export function qtExact(quantity: Quantity, si: number, against: readonly (numbe
 
 /**
  * A quantity token for a reading whose side of zero decides (NPSHa: at or below zero the liquid boils at the inlet
- * whatever the pump): `⟦head|1e-15|zero:2.25⟧`. Rendered as {@link qtExact}'s, read apart from zero too, except that
- * above zero and below {@link NEAR_ZERO_FLOOR} in the reader's unit it reads "< 0.001 m" — never an exponent
- * ("1.00e-15 m") nor a string of zeros (decision "npshzero", as the NPSH margin ratio's "< 0.01").
+ * whatever the pump): `⟦head|1e-15|zero:2.25⟧`. Rendered as {@link qtExact}'s, read apart from zero too, except where
+ * the reader's unit at three decimals would show it as zero though it is not: "< 0.001 m" above zero, "below 0 m" below
+ * ({@link nearZeroWords}) — never an exponent ("1.00e-15 m") nor a string of zeros ("-0.000001 m"; decisions "npshzero",
+ * "npshone"; as the NPSH margin ratio's "< 0.01"). Every NPSHa printed in a text is written with it, either side of zero.
  * @param quantity physical quantity of the value and of `against` (unitless id)
  * @param si the reading in SI
  * @param against the values it is compared with besides zero, in SI (missing or non-finite ones are left out)
@@ -251,9 +266,9 @@ export function fmtQuantity(units: UnitPreset, q: Quantity, si: number | null | 
 }
 
 /**
- * A reading judged by its side of zero (NPSHa), as text in the unit chosen for its quantity: above zero and below
- * {@link NEAR_ZERO_FLOOR} in that unit "< 0.001 m"; otherwise as {@link fmtQuantityExact}, read apart from zero and from
- * `against` (a tiny negative value as before: the text beside it says "at or below zero").
+ * A reading judged by its side of zero (NPSHa), as text in the unit chosen for its quantity: where three decimals in that
+ * unit would show it as zero though it is not, "< 0.001 m" above zero and "below 0 m" below ({@link nearZeroWords});
+ * otherwise as {@link fmtQuantityExact}, read apart from zero and from `against`.
  * @param units unit id per quantity (unitless ids)
  * @param q physical quantity of the value and of `against` (unitless id)
  * @param si the value in SI
@@ -262,8 +277,8 @@ export function fmtQuantity(units: UnitPreset, q: Quantity, si: number | null | 
 export function fmtQuantityAboveZero(units: UnitPreset, q: Quantity, si: number | null | undefined, against: readonly (number | null | undefined)[] = []): string {
   if (si == null || !Number.isFinite(si)) return "—";
   const unit = units[q];
-  const v = fromSI(q, unit, si);
-  if (v > 0 && v < NEAR_ZERO_FLOOR) return `< ${NEAR_ZERO_FLOOR} ${unitLabel(q, unit)}`;
+  const words = nearZeroWords(fromSI(q, unit, si));
+  if (words) return `${words} ${unitLabel(q, unit)}`;
   return fmtQuantityExact(units, q, si, [0, ...against]);
 }
 

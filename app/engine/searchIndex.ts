@@ -88,7 +88,11 @@ class PackBuilder {
   /** Start of a curve whose knots are pushed next. */
   begin(): number { return this.x.length; }
   push(x: number, y: number) { this.x.push(x); this.y.push(y); this.m.push(0); }
-  /** Ends the curve started at `start`: Fritsch-Carlson tangents in place (fewer than 2 knots: no curve). */
+  /**
+   * Ends the curve started at `start`: Fritsch-Carlson tangents in place. Fewer than 2 knots: no curve, as pumpCurve.ts
+   * `column` — a single published NPSHr point is judged nowhere, so the search never leaves a pump out, nor passes it, on
+   * it, as the workbench does not judge it (decision "npshone").
+   */
   end(start: number) {
     const n = this.x.length - start;
     if (n < 2) { this.x.length = start; this.y.length = start; this.m.length = start; }

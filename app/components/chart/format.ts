@@ -2,6 +2,7 @@
  * Number formatting for the chart's labels, readout and tables: fixed decimals by magnitude,
  * locale-independent, so the server and the browser render the same text.
  */
+import { nearZeroWords } from "../../engine/quantityText.ts";
 
 /**
  * Formats a display value: 3 decimals below 1, 2 below 10, else 1 — e.g. 360 → "360.0",
@@ -19,10 +20,11 @@ export function formatValue(v: number | null | undefined): string {
 }
 
 /**
- * NPSHa as the chart's readout and table view give it (display units): above zero and below 0.001, "< 0.001" (it read
- * "0.000", as NPSHa at zero; decision "npshzero", as the app's other NPSHa texts); otherwise as {@link formatValue}.
+ * NPSHa as the chart's readout and table view give it (display units): where three decimals would show it as zero though
+ * it is not, "< 0.001" above zero and "below 0" below (the engine's `nearZeroWords`, the one rule of every NPSHa text;
+ * decisions "npshzero", "npshone"); otherwise as {@link formatValue}.
  * @param v NPSHa in the chart's NPSH unit (m or ft)
  */
 export function formatNpshaValue(v: number | null | undefined): string {
-  return v != null && v > 0 && v < 0.001 ? "< 0.001" : formatValue(v);
+  return (v != null && nearZeroWords(v)) || formatValue(v);
 }

@@ -39,6 +39,7 @@ import {
 } from "~/engine";
 import { fmtPct, qt, qtPair } from "~/engine/quantityText";
 import type { LiquidSolver } from "./candidate-solve";
+import { whyNoNpshr, type NpshrPublished } from "./npshr-reach";
 import { roundUpSetting, settingText, settingToken } from "./setting-step";
 
 /** The two edges of the band: where the pump delivers most and least. */
@@ -107,12 +108,17 @@ export type BandPoint = {
   npshAvailable?: number | null;
   npshRequired?: number | null;
   reason: string | null;
+  /** One pump's flow on its own curve, m³/s (the flow but for pumps in parallel); absent without an operating point and in selections frozen before it was kept. */
+  pumpFlow?: number | null;
   /** The engine's cautions at this point (runout, dead-head, an unstable crossing…), the curve's own left out; absent in selections frozen before. */
   warnings?: string[];
 };
 
-/** NPSH at one point where the pump runs: NPSHa, NPSHr (m; null where unknown) and their ratio (dimensionless). */
-export type NpshPoint = { at: string; flow: number | null; available: number | null; required: number | null; marginRatio: number | null };
+/**
+ * NPSH at one point where the pump runs: NPSHa, NPSHr (m; null where unknown) and their ratio (dimensionless); `pumpFlow`
+ * one pump's flow on its curve, m³/s (the flow but for pumps in parallel; absent in selections frozen before it was kept).
+ */
+export type NpshPoint = { at: string; flow: number | null; pumpFlow?: number | null; available: number | null; required: number | null; marginRatio: number | null };
 
 /** NPSH judged where the pump runs: the design point and each corner of the band; the lowest margin decides. */
 export type NpshJudgement = {
@@ -134,6 +140,12 @@ export type NpshJudgement = {
    * already shows a cavitation risk. Absent in selections frozen before it was kept.
    */
   unjudged?: { at: string; why: string }[];
+  /**
+   * The NPSHr one pump's curve publishes, as run (npshr-reach.ts): first and last flow, or its one point — judged nowhere
+   * (decision "npshone"); null where it publishes none. Absent in selections frozen before it was kept (then the words
+   * say "no NPSHr at that flow" as they did).
+   */
+  npshrPublished?: NpshrPublished | null;
 };
 
 /**
@@ -148,15 +160,17 @@ export type NpshJudgement = {
  * @param requiredMargin the wanted NPSHa / NPSHr (dimensionless, > 1)
  * @param suctionStaticHead the suction static head as entered, m (the same at every corner: the band's lift is the
  *   system's static head, not the suction level); named in the rule when given
+ * @param published the NPSHr one pump's curve publishes, as run (`npshrPublished`; null: none): why a point has none
+ *   names where the NPSHr curve stops, or that it has one point only (never judged, decision "npshone")
  */
-export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number, suctionStaticHead?: number): NpshJudgement {
+export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoint[], requiredMargin: number, suctionStaticHead?: number, published?: NpshrPublished | null): NpshJudgement {
   const where = corners.map((c) => c.at).join("; ");
   const suction = suctionStaticHead != null ? `, NPSHa at each with the suction static head as entered (${qt("head", suctionStaticHead)}), the same at every corner: the band's lift varies the system's static head, not the suction level` : "";
   const rule = `NPSHa / NPSHr at least ${requiredMargin} at the design point and at each corner of the band (${where})${suction}; below 1, or NPSHa at or below zero whatever the pump: cavitation risk; a point with no operating point or no NPSHr leaves it unknown, unless another already shows a cavitation risk`;
   const judgedAt = design ? [design, ...corners] : [...corners];
   const unjudged = [
     ...(design ? [] : [{ at: "design point", why: "no operating point" }]),
-    ...judgedAt.filter((p) => p.marginRatio == null && !(p.available != null && p.available <= 0)).map((p) => ({ at: p.at, why: p.flow == null ? "no operating point" : p.required == null ? "no NPSHr at that flow" : "NPSHr there too small to judge against" })),
+    ...judgedAt.filter((p) => p.marginRatio == null && !(p.available != null && p.available <= 0)).map((p) => ({ at: p.at, why: p.flow == null ? "no operating point" : p.required == null ? whyNoNpshr(published, p) : "NPSHr there too small to judge against" })),
   ];
   let lowest: NpshPoint | null = null;
   let zero: NpshPoint | null = null;
@@ -170,11 +184,12 @@ export function npshOverBand(design: NpshPoint | null, corners: readonly NpshPoi
   const judged: NpshStatus = byZero ? "cavitation-risk" : npshStatus(lowest?.marginRatio ?? null, requiredMargin);
   // "ok" or a low margin over part of the band is no conclusion for the rest: a point not judged leaves it unknown.
   const status: NpshStatus = judged !== "cavitation-risk" && unjudged.length > 0 ? "unknown" : judged;
-  return { status, marginRatio: byZero ? null : (decides?.marginRatio ?? null), at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt, unjudged };
+  return { status, marginRatio: byZero ? null : (decides?.marginRatio ?? null), at: decides?.at ?? null, available: decides?.available ?? null, rule, requiredMargin, judgedAt, unjudged,
+    ...(published !== undefined ? { npshrPublished: published } : {}) };
 }
 
 /** A band point's NPSH as judged (`npshOverBand`). */
-export const npshPointOf = (b: BandPoint): NpshPoint => ({ at: b.edge, flow: b.flow, available: b.npshAvailable ?? null, required: b.npshRequired ?? null, marginRatio: b.npshMarginRatio });
+export const npshPointOf = (b: BandPoint): NpshPoint => ({ at: b.edge, flow: b.flow, pumpFlow: b.pumpFlow ?? b.flow, available: b.npshAvailable ?? null, required: b.npshRequired ?? null, marginRatio: b.npshMarginRatio });
 
 /** The efficiency table's largest rating, W (IEC 60034-30-1 stops at 1000 kW; motor.ts). */
 const IE_TABLE_END = 1e6;
@@ -236,7 +251,7 @@ function pointAt(ctx: Ctx, name: string, which: SystemCase): BandPoint {
   const na = npshAvailable({ surfacePressure: ctx.suction.surfacePressure, vaporPressure: ctx.prepared.fluid.vaporPressure, density: rho,
     staticSuctionHead: ctx.suction.staticHead, suctionLoss: suctionLoss(ctx.prepared, op.flow, which.roughness ?? "new").headLoss });
   return { edge: name, flow: op.flow, head: op.head, efficiency: inCurve ? efficiencyAt(ctx.curve, q1) : null,
-    shaftPower: p != null ? p * k : null, npshMarginRatio: npshMarginRatio(na, nr), npshAvailable: na, npshRequired: nr, reason: null,
+    shaftPower: p != null ? p * k : null, npshMarginRatio: npshMarginRatio(na, nr), npshAvailable: na, npshRequired: nr, reason: null, pumpFlow: q1,
     warnings: op.warnings.filter((w) => !ctx.combined.warnings.some((c) => c.code === w.code)).map((w) => w.message) };
 }
 

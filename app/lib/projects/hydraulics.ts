@@ -39,9 +39,10 @@ import { arrangementStartWarnings, parallelStaging } from "./arrangement-start";
 import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
 import { minFlowCheck, type MinFlowCheck } from "./verdict-min-flow";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
-import { fmtNumExact, qt, qtExact, qtPair } from "~/engine/quantityText";
+import { fmtNumExact, qt, qtAboveZero, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
+import { npshrPublished } from "./npshr-reach";
 
 export type RunReport = {
   name: string;
@@ -89,7 +90,7 @@ export function npshaAtZeroFlow(input: SystemInput, fluid: { density: number; va
   const npsha = net / rhoG + input.suctionStaticHead;
   if (npsha > 0) return null;
   const [netText, liftText] = qtPair("pressure", net, lift);
-  return `NPSH available is ${qtExact("head", npsha, [0])} already at zero flow, not above zero: the surface pressure ${qt("pressure", input.suctionSurfacePressure)} less the vapour pressure ${qt("pressure", fluid.vaporPressure)} is ${netText}, not above −ρ g z_suction ${liftText} for the suction static head ${qt("head", input.suctionStaticHead)}. Any pump cavitates here whatever its NPSHr: raise the liquid level or the surface pressure, lower the pump, or cool the liquid.`;
+  return `NPSH available is ${qtAboveZero("head", npsha, [])} already at zero flow, not above zero: the surface pressure ${qt("pressure", input.suctionSurfacePressure)} less the vapour pressure ${qt("pressure", fluid.vaporPressure)} is ${netText}, not above −ρ g z_suction ${liftText} for the suction static head ${qt("head", input.suctionStaticHead)}. Any pump cavitates here whatever its NPSHr: raise the liquid level or the surface pressure, lower the pump, or cool the liquid.`;
 }
 
 /** System curve, band, per-run figures at the duty flow, and NPSHa over the flow range. */
@@ -272,8 +273,9 @@ export function evaluateCandidate(
   }));
   let figures: CandidateEvaluation["figures"] = null;
   let por: CandidateEvaluation["por"] = null;
+  let perPumpFlow: number | null = null;
   if (op.flow != null && op.head != null) {
-    const perPumpFlow = adj.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: n }, curve) : op.flow; // on the pump's own curve at the combined end
+    perPumpFlow = adj.arrangement === "parallel" ? flowPerPump(op.flow, { mode: "parallel", duty: n }, curve) : op.flow; // on the pump's own curve at the combined end
     const perPumpHead = adj.arrangement === "series" ? op.head / n : op.head;
     const sl = suctionLoss(prepared, op.flow, "new").headLoss;
     const f = operatingFigures({
@@ -336,11 +338,13 @@ export function evaluateCandidate(
   const edgeAndStart = [...bandCautions(band, { flow: op.flow, warnings: wText(op.warnings) }), ...arrangementStartWarnings(ctx, staged)];
   warnings.push(...edgeAndStart);
   const cautions = [...new Set([...wText(op.warnings.filter((w) => VERDICT_CAUTION_CODES.has(w.code))), ...edgeAndStart])];
-  const design = figures && op.flow != null ? { at: "design point", flow: op.flow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
-  const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined);
+  const design = figures && op.flow != null ? { at: "design point", flow: op.flow, pumpFlow: perPumpFlow, available: figures.npshAvailable, required: figures.npshRequired, marginRatio: figures.npshMarginRatio } : null;
+  // Where one pump's NPSHr, as run, is published (a single point judged nowhere: npshr-reach.ts, decision "npshone").
+  const published = npshrPublished(curve.points, adj.arrangement === "single" ? 1 : n);
+  const npsh = npshOverBand(design, npshCornerPoints(ctx, band), input.npshMargin, input.mode === "open" ? input.suctionStaticHead : undefined, published);
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
     warnings.push(npsh.marginRatio == null
-      ? `NPSH at ${npsh.at}: NPSHa ${qtExact("head", npsh.available ?? NaN, [0])} is not above zero: cavitation risk whatever the pump's NPSHr`
+      ? `NPSH at ${npsh.at}: NPSHa ${qtAboveZero("head", npsh.available ?? NaN, [])} is not above zero: cavitation risk whatever the pump's NPSHr`
       : `NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat

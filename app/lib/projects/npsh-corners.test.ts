@@ -106,7 +106,7 @@ describe("NPSHa at or below zero: a cavitation risk whatever the pump, NPSHr kno
     const warned = (z: number) => evaluateSystem({ ...base, suctionStaticHead: z }).warnings.filter((w) => w.startsWith("NPSH available is"));
     expect(warned(zStar + 1e-6)).toEqual([]);
     const [w] = warned(zStar - 1e-6);
-    const m = /^NPSH available is (-0\.0+1) m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 2\.34 kPa is ([\d.]+) kPa, not above −ρ g z_suction ([\d.]+) kPa for the suction static head -10\.\d m\./.exec(inSI(w));
+    const m = /^NPSH available is (below 0) m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 2\.34 kPa is ([\d.]+) kPa, not above −ρ g z_suction ([\d.]+) kPa for the suction static head -10\.\d m\./.exec(inSI(w));
     expect(m, inSI(w)).toBeTruthy();
     expect(Number(m![2])).toBeLessThan(Number(m![3])); // the pair reads apart, in the order of its values
     // A liquid whose vapour pressure is above the surface pressure, flooded 2 m: the system says so.

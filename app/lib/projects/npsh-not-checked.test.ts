@@ -1,7 +1,8 @@
 // A pump that passes (meets the duty, or oversized) whose NPSH could not be judged everywhere the rule names — its curve
 // publishes no NPSHr at a point's flow (the NPSHr curve ends before it, or none at all), or no operating point there — was
 // a plain "meets the duty" on its line (verdict-npsh.ts said nothing for an unknown status; only the NPSH cell said "not
-// judged"). Now the line says "but NPSH not checked: the curve publishes no NPSHr at <flow> (<where>)" on every surface
+// judged"). Now the line says "but NPSH not checked: the NPSHr curve ends at <flow>, and the pump runs past it at <flow>
+// (<where>)" (where it stops since decision "npshone"; "the curve publishes no NPSHr at <flow> (<where>)" without any) on every surface
 // that shows the verdict as a headline: candidates table and report (`npshNoteOf`), the chart's label, the CSV's
 // `verdict_npsh`, the systems API's `verdictNpsh`, the search row (`searchResultView`). The flip is bisected on the
 // system's least-lift static head, moving the least-lift corner's flow across the NPSHr curve's last published flow.
@@ -53,22 +54,22 @@ describe("the NPSHr curve ends before the duty flow: 'NPSH not checked' on the v
   it("the case: meets the duty, NPSH unknown (no NPSHr at any point judged)", () => {
     expect(r.verdict?.status).toBe("meets");
     expect(r.npsh.status).toBe("unknown");
-    expect(r.npsh.unjudged?.every((u) => u.why === "no NPSHr at that flow")).toBe(true);
+    expect(r.npsh.unjudged?.every((u) => u.why === "past the NPSHr curve's last flow")).toBe(true);
   });
   it("the qualifier names each flow without NPSHr and where (old code: null, a plain 'meets the duty')", () => {
     const note = renderUnits(verdictNpshNote(r.verdict, r.npsh) ?? "", SI_UNITS);
-    expect(note).toMatch(/^but NPSH not checked: the curve publishes no NPSHr at \d+\.\d m³\/h \(design point\), \d+\.\d m³\/h \(least lift, new pipe\), /);
+    expect(note).toMatch(/^but NPSH not checked: the NPSHr curve ends at 28\.8 m³\/h, and the pump runs past it at \d+\.\d m³\/h \(design point\), \d+\.\d m³\/h \(least lift, new pipe\), /);
     expect(verdictNpshShort(r.verdict, r.npsh)).toBe(", but NPSH not checked");
   });
   it("every surface says it: table and report, chart label, CSV verdict_npsh, systems API verdictNpsh, search row", () => {
     const s = surfaces(r, input, 0.008);
     for (const [where, text] of Object.entries(s)) expect(text, where).toMatch(/NPSH not checked/);
-    expect(s.csv).toMatch(/^but NPSH not checked: the curve publishes no NPSHr at \d+\.\d m³\/h \(design point\)/);
+    expect(s.csv).toMatch(/^but NPSH not checked: the NPSHr curve ends at 28\.8 m³\/h, and the pump runs past it at \d+\.\d m³\/h \(design point\)/);
   });
   it("the table's NPSH margin row says what it did at the operating point (was a bare '—')", () => {
     const html = renderToStaticMarkup(createElement(CandidateTable, { view: view(r), unitSystem: SI_UNITS }));
     const cell = (/<th scope="row"[^>]*>NPSH margin<\/th><td[^>]*>(.*?)<\/td>/.exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
-    expect(cell).toMatch(/^not checked: the curve publishes no NPSHr at \d+\.\d m³\/h$/);
+    expect(cell).toMatch(/^not checked: the NPSHr curve ends at 28\.8 m³\/h, and the pump runs past it at \d+\.\d m³\/h$/);
   });
   it("no NPSHr column at all: the same words", () => {
     const none = evaluate(input, -1);
@@ -105,7 +106,8 @@ describe("the flip: the least-lift corner's flow crossing the NPSHr curve's last
   it("a corner just past it: 'but NPSH not checked: … no NPSHr at … (least lift, new pipe); where judged, the lowest …'", () => {
     expect(past.npsh.status).toBe("unknown");
     const note = renderUnits(verdictNpshNote(past.verdict, past.npsh) ?? "", SI_UNITS);
-    expect(note).toMatch(/^(but|and) NPSH not checked: the curve publishes no NPSHr at 43\.2 m³\/h \(least lift, new pipe\)(, [^;]+)?; where judged, the lowest NPSHa \/ NPSHr is \d+\.\d\d at /);
+    // The corner's flow lies a rounding error past the end (bisected to 1e-15), within the 9 significant digits a text prints.
+    expect(note).toMatch(/^(but|and) NPSH not checked: the NPSHr curve ends at 43\.2 m³\/h, and the pump runs past it at 43\.2\d* m³\/h \(least lift, new pipe\)(, [^;]+)?; where judged, the lowest NPSHa \/ NPSHr is \d+\.\d\d at /);
     for (const [where, text] of Object.entries(surfaces(past, { ...defaultSystemInput(), staticLow: hi }, END))) expect(text, where).toMatch(/NPSH not checked/);
   });
 });

@@ -108,9 +108,9 @@ describe("property: every demo curve at NPSHa just above, at and below zero", ()
           const where = `${c.model} ${c.speed} rpm Ø${c.impellerMm} · ${method} · least NPSHa ${t} m`;
           passing++;
           const note = inSI(verdictNpshNote(r.verdict, r.npsh) ?? "");
-          expect(note, where).toMatch(t < 0 ? /at or below zero.*cavitation risk/ : /cavitation risk|NPSH not checked: the curve publishes no NPSHr at /);
+          expect(note, where).toMatch(t < 0 ? /at or below zero.*cavitation risk/ : /cavitation risk|NPSH not checked: the NPSHr curve ends at /);
           if (t === 50) {
-            expect(note, where).toMatch(/^(but|and) NPSH not checked: the curve publishes no NPSHr at /); // old code: null, a plain pass
+            expect(note, where).toMatch(/^(but|and) NPSH not checked: the NPSHr curve ends at [\d.]+ m³\/h, and the pump runs past it at /); // old code: null, a plain pass; where it stops since decision "npshone"
             expect(inSI(apiNote(r) ?? ""), where).toBe(note);
             expect(inSI(rowNote(r) ?? ""), where).toBe(note);
             expect(csvNote(r, input, s.points), where).toBe(note);

@@ -5,7 +5,7 @@
 // and a pump that publishes none there is not ruled out by it, yet cavitates there too (common practice: NPSHa ≤ 0 is a
 // cavitation risk whatever the pump). Used by the search page (stats line and note) and the systems search read API
 // (`npshaNote`). Pure.
-import { qtAboveZero, qtExact } from "~/engine/quantityText";
+import { qtAboveZero } from "~/engine/quantityText";
 
 /** NPSHa at the duty at or below zero (m): no NPSHr decides there. */
 const atOrBelowZero = (npshaAtDuty: number | null | undefined): npshaAtDuty is number => npshaAtDuty != null && npshaAtDuty <= 0;
@@ -19,7 +19,7 @@ const atOrBelowZero = (npshaAtDuty: number | null | undefined): npshaAtDuty is n
  */
 export function npshaAtDutyNote(npshaAtDuty: number | null | undefined, leftOut: number): string | null {
   if (!atOrBelowZero(npshaAtDuty)) return null;
-  const head = `NPSHa at the duty is ${qtExact("head", npshaAtDuty, [0])}, at or below zero: no pump can run there without cavitating, whatever its NPSHr.`;
+  const head = `NPSHa at the duty is ${qtAboveZero("head", npshaAtDuty, [])}, at or below zero: no pump can run there without cavitating, whatever its NPSHr.`;
   return leftOut > 0
     ? `${head} ${leftOut} pump${leftOut === 1 ? "" : "s"} with an NPSHr at the duty ${leftOut === 1 ? "was" : "were"} left out for it; a pump without one is not ruled out by it, and cavitates there too.`
     : `${head} A pump without an NPSHr at the duty is not ruled out by it, and cavitates there too.`;

@@ -85,15 +85,17 @@ const Result = obj({
   figures: v.nullable(Figures),
   por: v.nullish(obj({ minFlow: num, maxFlow: num })),
   /** NPSHa and NPSHr at each edge: absent in selections frozen before they were kept. */
-  band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, npshAvailable: nullishNum, npshRequired: nullishNum, reason: v.nullable(str) }))),
+  band: v.optional(v.array(obj({ edge: str, flow: numOrNull, head: numOrNull, efficiency: numOrNull, shaftPower: numOrNull, npshMarginRatio: numOrNull, npshAvailable: nullishNum, npshRequired: nullishNum, reason: v.nullable(str), pumpFlow: nullishNum }))),
   npsh: v.optional(obj({
     status: str, marginRatio: numOrNull, at: v.nullable(str), rule: str, available: nullishNum,
     /** The wanted NPSHa / NPSHr: absent in selections frozen before it was kept. */
     requiredMargin: v.optional(num),
     /** Absent in selections frozen before the band's four corners were judged. */
-    judgedAt: v.optional(v.array(obj({ at: str, flow: numOrNull, available: numOrNull, required: numOrNull, marginRatio: numOrNull }))),
+    judgedAt: v.optional(v.array(obj({ at: str, flow: numOrNull, pumpFlow: nullishNum, available: numOrNull, required: numOrNull, marginRatio: numOrNull }))),
     /** The points the rule could not judge, with why (the report, the CSV's npsh_not_judged_at): absent in selections frozen before it was kept. */
     unjudged: v.optional(v.array(obj({ at: str, why: str }))),
+    /** Where one pump's NPSHr is published (npshr-reach.ts): null none, absent in selections frozen before it was kept. */
+    npshrPublished: v.nullish(obj({ from: num, to: num, points: num, single: numOrNull, pumps: num })),
   })),
   /** The maker's minimum flow against the duty (verdict-min-flow.ts): null without a figure, absent in selections frozen before it was kept. */
   minFlow: v.nullish(obj({ published: num, method: v.picklist(["none", "speed", "trim"]), ratio: num, atPump: num, dutyFlow: numOrNull, running: num, dutyPerPump: numOrNull, below: v.boolean() })),
@@ -155,7 +157,8 @@ const LABELS: Record<string, string> = {
   flowMax: "flow range", flows: "flows", design: "design curve", low: "low-level curve", high: "high-level curve", npsha: "NPSH available",
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input", pumpsRunning: "pumps running", pumpShaftPower: "one pump's shaft power",
   minFlow: "maker's minimum flow", published: "as published", atPump: "one pump's minimum as run", dutyPerPump: "duty per running pump", running: "pumps running", below: "below it",
-  judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
+  judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", pumpFlow: "one pump's flow", npshrPublished: "NPSHr as published",
+  from: "first flow", to: "last flow", single: "its one NPSHr", pumps: "pumps running together", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
 const ITEMS: Record<string, string> = {

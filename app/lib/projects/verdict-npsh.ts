@@ -5,9 +5,11 @@
 // qualifies it on the same line, with its rule and numbers. A pump that passes (meets the duty, or oversized) whose NPSH
 // could not be judged everywhere the rule names (no NPSHr published at a point's flow: the NPSHr curve ends before it,
 // or none at all; or no operating point there) is no plain pass either: its line says "NPSH not checked" with the flows
-// and where (decision "npshzero"). Pure; quantities as tokens (quantityText.ts).
+// and where (decision "npshzero"), and where the NPSHr curve stops with both flows, or that it publishes one point only,
+// which is judged nowhere (npshr-reach.ts, decision "npshone"). Pure; quantities as tokens (quantityText.ts).
 import { qt, qtAboveZero, qtExact } from "~/engine/quantityText";
 import { marginRatioText } from "./npsh-ratio";
+import { npshrGapClauses } from "./npshr-reach";
 import type { NpshJudgement } from "./candidate-judgement";
 
 type VerdictLike = { status: string } | null | undefined;
@@ -22,7 +24,7 @@ type VerdictLike = { status: string } | null | undefined;
 export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string | null {
   if (!n || (n.status !== "cavitation-risk" && n.status !== "low-margin")) return null;
   const a = n.available ?? null;
-  if (n.status === "cavitation-risk" && a != null && a <= 0) return `NPSHa ${qtExact("head", a, [0])}, at or below zero, at ${n.at}: cavitation risk whatever the pump's NPSHr`;
+  if (n.status === "cavitation-risk" && a != null && a <= 0) return `NPSHa ${qtAboveZero("head", a, [])}, at or below zero, at ${n.at}: cavitation risk whatever the pump's NPSHr`;
   const r = n.marginRatio;
   if (r == null) return null;
   const required = n.judgedAt?.find((p) => p.at === n.at)?.required ?? null;
@@ -41,10 +43,13 @@ export function npshAgainstVerdict(n: NpshJudgement | null | undefined): string 
 const PASSES: readonly string[] = ["meets", "oversized"];
 
 /**
- * Where NPSH over the band could not be judged, in words with the flows: "NPSH not checked: the curve publishes no NPSHr
- * at ⟦flow|0.0119⟧ (design point), ⟦flow|0.0131⟧ (least lift, new pipe); no operating point at least lift, aged pipe;
- * where judged, the lowest NPSHa / NPSHr is 1.52 at most lift, aged pipe". A point whose NPSHa is at or below zero is
- * judged by NPSHa (a cavitation risk), never listed here. A selection frozen before the points were kept names what it holds.
+ * Where NPSH over the band could not be judged, in words with the flows: "NPSH not checked: the NPSHr curve ends at
+ * ⟦flow|0.0111⟧, and the pump runs past it at ⟦flow|0.0119⟧ (design point), ⟦flow|0.0131⟧ (least lift, new pipe); no
+ * operating point at least lift, aged pipe; where judged, the lowest NPSHa / NPSHr is 1.52 at most lift, aged pipe"
+ * (before its first flow "starts at …, and the pump runs below it at …"; one published point "the curve publishes NPSHr at
+ * one flow only (…): one point is no curve to read it at …"; none "the curve publishes no NPSHr at …": npshr-reach.ts).
+ * A point whose NPSHa is at or below zero is judged by NPSHa (a cavitation risk), never listed here. A selection frozen
+ * before the points (or the NPSHr's reach) were kept names what it holds.
  * @param n the judgement (`npshOverBand`), status "unknown"; flows m³/s, ratios dimensionless
  */
 export function npshNotCheckedText(n: NpshJudgement): string {
@@ -53,7 +58,7 @@ export function npshNotCheckedText(n: NpshJudgement): string {
   const tiny = unjudged.filter((p) => p.required != null); // an NPSHr so small that NPSHa / NPSHr is no number (engine npshMarginRatio)
   const noPoint = (n.unjudged ?? []).filter((u) => u.why === "no operating point").map((u) => u.at);
   const parts: string[] = [];
-  if (noNpshr.length) parts.push(`the curve publishes no NPSHr at ${noNpshr.map((p) => `${qt("flow", p.flow!)} (${p.at})`).join(", ")}`);
+  parts.push(...npshrGapClauses(n.npshrPublished, noNpshr));
   if (tiny.length) parts.push(`the curve's NPSHr is too small to judge against at ${tiny.map((p) => `${qt("flow", p.flow!)} (${p.at}: ${qt("head", p.required!)})`).join(", ")}`);
   if (noPoint.length) parts.push(`no operating point at ${noPoint.join(", ")}`);
   if (!parts.length) parts.push(n.unjudged?.length ? n.unjudged.map((u) => `${u.at} (${u.why})`).join(", ") : "the NPSH status over the band is unknown");
