@@ -21,6 +21,8 @@ export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)(?:\|([^⟦⟧|]*))?
 const LIMIT_MARK = "limit:";
 /** Marks a {@link qtAboveZero} token (a reading judged by its side of zero), before the values it reads apart from. */
 const ZERO_MARK = "zero:";
+/** Marks the values of a {@link qtBound} token (a range's end in a refusal: a limit, its whole part grouped). */
+const BOUND_MARK = "bound:";
 /**
  * The smallest step the magnitude rule shows below 1 (three decimals), in the unit shown: a reading judged by its side of
  * zero (NPSHa) that those decimals would show as zero though it is not reads "< 0.001 m" above zero (decision "npshzero").
@@ -53,7 +55,7 @@ export function qt(quantity: Quantity, si: number): string {
 function apartToken(quantity: Quantity, si: number, against: readonly (number | null | undefined)[], mark: string): string {
   if (!Number.isFinite(si)) return qt(quantity, si);
   const others = against.filter((a): a is number => a != null && Number.isFinite(a)).map(String);
-  return `⟦${quantity}|${String(si)}${others.length ? `|${mark}${others.join(",")}` : ""}⟧`;
+  return `⟦${quantity}|${String(si)}${others.length || mark === BOUND_MARK ? `|${mark}${others.join(",")}` : ""}⟧`; // a bound keeps its mark alone
 }
 
 /**
@@ -100,6 +102,17 @@ export function qtLimit(quantity: Quantity, si: number, readings: readonly (numb
 }
 
 /**
+ * A quantity token for the end of a range a refusal names ("it takes from 0 to 3,280,840 ft"): as {@link qtLimit}, its
+ * whole part grouped in thousands as {@link fmtInt} groups a count, so a long limit reads at a glance.
+ * @param quantity physical quantity of the end and of `readings` (unitless id)
+ * @param si the end in SI (temperature in °C)
+ * @param readings the values refused against it, in SI (missing or non-finite ones are left out)
+ */
+export function qtBound(quantity: Quantity, si: number, readings: readonly (number | null | undefined)[]): string {
+  return apartToken(quantity, si, readings, BOUND_MARK);
+}
+
+/**
  * A reading and the limit it is judged against, as {@link qtExact} and {@link qtLimit} tokens of each other.
  * @param quantity physical quantity of both (unitless id)
  * @param reading the reading in SI
@@ -122,6 +135,19 @@ const maxDecimals = (base: number, values: readonly number[]) => {
 const TINY_SIGNIFICANT = 3;
 /** "-0.000" reads as zero: drop the sign of a rounded zero. */
 const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
+
+const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+/** A whole number with thousands separators, e.g. 12345 → "12,345"; "—" when missing (re-exported by `app/lib/shared/format.ts`). */
+export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
+
+/**
+ * A number as written (by {@link fmtNum}, {@link fmtNumExact}, or plainly) with its whole part grouped as {@link fmtInt}
+ * groups it: "3280840" → "3,280,840", "−1000.5" → "−1,000.5"; "0.244", "4.00e-7" and text that is no number unchanged.
+ * @param text the number as written (unitless)
+ */
+export function groupThousands(text: string): string {
+  return text.replace(/^([-−]?)(\d{4,})(?=$|[.eE\s])/, (_, sign: string, whole: string) => `${sign}${fmtInt(Number(whole))}`);
+}
 
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
@@ -314,13 +340,15 @@ export function renderQuantities(text: string, units: UnitPreset): string {
     if (raw === "NaN") return "—";
     const x = raw.trim() === "" ? NaN : Number(raw);
     if (!Number.isFinite(x)) return whole;
-    const limit = apart?.startsWith(LIMIT_MARK) ?? false;
+    const bound = apart?.startsWith(BOUND_MARK) ?? false;
+    const limit = bound || (apart?.startsWith(LIMIT_MARK) ?? false);
     const zero = apart?.startsWith(ZERO_MARK) ?? false;
-    const list = apart === undefined ? undefined : apart.slice(limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
-    const against = list === undefined || (zero && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
+    const list = apart === undefined ? undefined : apart.slice(bound ? BOUND_MARK.length : limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
+    const against = list === undefined || ((zero || bound) && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
     if (!against.every(Number.isFinite)) return whole;
     try {
       if (zero) return fmtQuantityAboveZero(units, q, x, against);
+      if (bound) return groupThousands(fmtQuantityExact(units, q, x, against, true));
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {
       if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written

@@ -3,7 +3,7 @@ import { Form, redirect, useActionData, useLoaderData, useNavigation } from "rea
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
-import { adjustCandidate, archiveSystem, copySystem, problemFieldErrors, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, storedRuns, systemPage } from "~/lib/projects";
+import { adjustCandidate, archiveSystem, copySystem, problemFieldErrors, removeCandidate, saveSystem, selectCandidate, setCandidatePrice, storedForEditor, systemPage } from "~/lib/projects";
 import { DEFAULT_ENERGY_SETTINGS, readPriceCents } from "~/lib/projects/energy";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { workspaceCurrency } from "~/lib/workspaces";
@@ -64,8 +64,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   const sys = m.user.units;
   switch (intent) {
     case "save": {
-      // Read against the stored runs (a size the catalogue no longer lists is kept only on the run stored with it).
-      const { input, name, errors } = readSystemForm(form, sys, await storedRuns(viewer, id));
+      // Read against the stored document: a size the catalogue no longer lists is kept only where a stored run holds it, and
+      // a post without the energy fields keeps the stored settings.
+      const { input, name, errors } = readSystemForm(form, sys, await storedForEditor(viewer, id));
       if (!input) return { errors, notice: null };
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
@@ -130,7 +131,7 @@ export default function SystemPage() {
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => {
       if (!formRef.current) return;
-      const r = readSystemForm(new FormData(formRef.current), d.unitSystem, d.input.runs);
+      const r = readSystemForm(new FormData(formRef.current), d.unitSystem, d.input);
       setLiveErrors(r.errors);
       setTyped(true);
       if (r.input) setDraft(JSON.stringify(r.input));

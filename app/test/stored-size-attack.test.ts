@@ -1,6 +1,7 @@
 // A crafted post against the stored-size rule (decision "oldedge", "storedattack"): the editor keeps a run on a pipe table or
-// size the catalogue does not list now only where the system's stored document holds that run (same position, table, size;
-// its stored bore unless one was typed over it). The server decides from the stored document, never from fields the page
+// size the catalogue does not list now only where the system's stored document holds that table and size, on one run each
+// (the run at its own position first; helper "formkeep": by the size, not the position — stored-size-moved.test.ts), on its
+// stored bore unless one was typed over it. The server decides from the stored document, never from fields the page
 // posts: made-up tables and sizes, another run's stored size, 10 kB strings, control characters and odd bores are refused
 // at the field as any unlisted size ("Pick a size from this pipe table."), never a 5xx, never stored. Through the route's
 // action (harness `call`) and through the root middleware (route-table `send`, `wrongAnswer`).

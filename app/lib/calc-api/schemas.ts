@@ -3,6 +3,7 @@
 import * as v from "valibot";
 import { WATER_RANGE_C } from "~/engine";
 import type { RateLimitRule } from "../shared/ratelimit.server";
+import { groupThousands } from "../shared/format";
 
 // ───────────────────────────── limits (documented on /api) ─────────────────────────────
 
@@ -55,13 +56,14 @@ export const BODY_FIELD = "(body)";
 const numberMsg = (issue: v.BaseIssue<unknown>) => `must be a number (got ${issue.received})`;
 const finiteMsg = "must be a finite number";
 
-/** A finite number with bounds; `gt` is an exclusive lower bound. Messages carry the unit. */
+/** A finite number with bounds; `gt` is an exclusive lower bound. Messages carry the unit, the bounds grouped ("100,000"). */
 function num(o: { unit?: string; min?: number; gt?: number; max?: number }) {
   const u = o.unit ? ` ${o.unit}` : "";
+  const n = (x: number) => groupThousands(String(x));
   const checks: v.PipeItem<number, number, v.BaseIssue<unknown>>[] = [];
-  if (o.gt !== undefined) checks.push(v.gtValue(o.gt, `must be greater than ${o.gt}${u}`));
-  if (o.min !== undefined) checks.push(v.minValue(o.min, o.min === 0 ? "must not be negative" : `must be at least ${o.min}${u}`));
-  if (o.max !== undefined) checks.push(v.maxValue(o.max, `must be at most ${o.max}${u}`));
+  if (o.gt !== undefined) checks.push(v.gtValue(o.gt, `must be greater than ${n(o.gt)}${u}`));
+  if (o.min !== undefined) checks.push(v.minValue(o.min, o.min === 0 ? "must not be negative" : `must be at least ${n(o.min)}${u}`));
+  if (o.max !== undefined) checks.push(v.maxValue(o.max, `must be at most ${n(o.max)}${u}`));
   return v.pipe(v.number(numberMsg), v.finite(finiteMsg), ...checks);
 }
 

@@ -4,6 +4,7 @@
 import { fluidTemperatureRangeC, fromSI, STANDARD_ATMOSPHERE, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
 import { fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
+import { groupThousands } from "../shared/format";
 import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
@@ -202,7 +203,8 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
    * takes, in the unit typed (`word`: the unit's label where the field has no quantity), and `why` a bound is where it is.
    */
   const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean; word?: string; why?: string } = {}): number | null => {
-    const shown = (si: number) => String(Number((q ? fromSI(q, unit, si) : si).toPrecision(6))).replace("-", "−");
+    // A range's end, its whole part grouped as the app writes counts ("100,000 kPa"; shared/format.ts).
+    const shown = (si: number) => groupThousands(String(Number((q ? fromSI(q, unit, si) : si).toPrecision(6))).replace("-", "−"));
     const word = q ? unitLabel(q, unit) : (opts.word ?? "");
     const w = word ? (word === "%" ? " %" : ` ${word}`) : "";
     const range = opts.min !== undefined && opts.max !== undefined
@@ -246,7 +248,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     const pressure = num(`${p}Pressure`, `the ${side} pressure`, "pressure", pUnit, {
       min: reference === "absolute" ? 0 : -STANDARD_ATMOSPHERE,
       max: 1e8,
-      why: reference === "absolute" ? "an absolute reading is never below zero; up to 1000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1000 bar",
+      why: reference === "absolute" ? "an absolute reading is never below zero; up to 1,000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1,000 bar",
     });
     const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" }) ?? 0;
     const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });

@@ -8,6 +8,7 @@ import * as v from "valibot";
 import { FITTINGS, MATERIALS, PIPE_TABLES } from "~/engine";
 import { qtPair } from "~/engine/quantityText";
 import { MAX_RUNS, storedSizeNote, SystemInputEntrySchema, type PipeRunInput, type SystemInput } from "./system-input";
+import { previewMessage } from "./preview-words";
 
 /** Most refusals listed in one answer (the calculators' MAX_ERRORS): 40 broken runs give hundreds. */
 export const PREVIEW_ERRORS_LISTED = 25;
@@ -75,7 +76,8 @@ export function readPreviewBody(body: unknown, stored: readonly PipeRunInput[]):
   } else {
     const seen = new Map<string, PreviewProblem>();
     for (const i of parsed.issues) {
-      const p = problem((i.path ?? []).map((x) => x.key as string | number), i.message);
+      const path = (i.path ?? []).map((x) => x.key as string | number);
+      const p = problem(path, previewMessage(i, path)); // valibot's wording in plain words, ranges as the editor's (preview-words.ts)
       if (!seen.has(p.pointer)) seen.set(p.pointer, p);
     }
     found = [...seen.values()];

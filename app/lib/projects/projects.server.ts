@@ -18,7 +18,6 @@ import {
   candidatesFlowMax,
   SystemInputEntrySchema,
   type Adjustment,
-  type PipeRunInput,
   type SystemInput,
 } from "./hydraulics";
 import { candidateEnergy, type CandidateEnergy } from "./energy";
@@ -167,13 +166,14 @@ export async function createSystem(viewer: Viewer, projectId: number, name: stri
 }
 
 /**
- * The runs of a system's stored document at the positions the editor shows them (a document that does not pass the
- * schema as `editorInput` reads it): what the editor's form is read against (`readSystemForm`), so only a run stored on
- * a table or size the catalogue does not list now keeps it — the server's word, not a posted field.
+ * A system's stored document as the editor shows it (one that does not pass the schema as `editorInput` reads it): what
+ * the editor's form is read against (`readSystemForm`) — only a table or size the catalogue does not list now that a stored
+ * run holds is kept, and a post without the energy fields keeps the stored ones; the server's word, not a posted field.
+ * The preview API reads its runs (preview-input.ts).
  */
-export async function storedRuns(viewer: Viewer, systemId: number): Promise<PipeRunInput[]> {
+export async function storedForEditor(viewer: Viewer, systemId: number): Promise<SystemInput> {
   const r = readStoredInput((await systemRecord(viewer, systemId)).inputJson);
-  return r.ok ? r.input.runs : editorInput(r.raw).runs;
+  return r.ok ? r.input : editorInput(r.raw);
 }
 
 export async function saveSystem(viewer: Viewer, systemId: number, name: string, input: SystemInput) {

@@ -2,8 +2,9 @@
 // the unit it is read in (quantity tokens, rendered by whoever shows the words: the editor in the user's units, the API in
 // the caller's). Pure: the schema (system-input.ts), the editor's form (system-form.ts) and the preview API say the same.
 import { PIPE_TABLES, type Quantity } from "~/engine";
-import { qtLimit } from "~/engine/quantityText";
+import { qtBound } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
+import { groupThousands } from "../shared/format";
 
 /** A number's range: its field's label, quantity (null: a plain number), ends in SI, and why an end is where it is. */
 export type NumberRange = { label: string; q: Quantity | null; min: number; max: number; why?: string };
@@ -38,18 +39,21 @@ export const EXTRA_K_RANGE: NumberRange = { label: "Extra ΣK", q: null, min: 0,
  */
 export const boreTaken = (d: number) => d >= MIN_BORE * (1 - SHOWN_PRECISION) && d <= MAX_BORE;
 
-const plain = (x: number) => String(x).replace("-", "−");
+const plain = (x: number) => groupThousands(String(x).replace("-", "−"));
 
-/** "from A to B (why)": the ends as tokens, each told apart from `value` where it would read the same. */
+/**
+ * "from A to B (why)": the ends as tokens, each told apart from `value` where it would read the same, their whole parts
+ * grouped in thousands as the app writes counts ("from 0 to 1,000,000 m"; `qtBound`, `groupThousands`).
+ */
 export function rangeText(r: NumberRange, value?: number | null): string {
   const against = value != null && Number.isFinite(value) && Math.abs(value) <= MAX_MAGNITUDE ? [value] : [];
-  const end = (x: number) => (r.q && x !== 0 ? qtLimit(r.q, x, against) : plain(x)); // zero needs no unit: "from 0 to 50.0 mm"
+  const end = (x: number) => (r.q && x !== 0 ? qtBound(r.q, x, against) : plain(x)); // zero needs no unit: "from 0 to 50.0 mm"
   return `from ${end(r.min)} to ${end(r.max)}${r.why ? ` (${r.why})` : ""}`;
 }
 
 /**
  * The refusal of a value outside `r` (null or not finite: not a number), naming the field and the range it takes:
- * "Length is too high: it takes from 0 m to 1000000 m; check the value and its unit."
+ * "Length is too high: it takes from 0 to 1,000,000 m; check the value and its unit."
  */
 export function outOfRange(r: NumberRange, value: number | null): string {
   if (value === null || !Number.isFinite(value)) return `${r.label} must be a number; it takes ${rangeText(r)}.`;

@@ -54,21 +54,21 @@ export function docPathLabel(keys: readonly (string | number)[], words: DocWords
   return out.length ? out.join(", ") : words.whole;
 }
 
-/** A valibot limit (">=0", "<=500") in words. */
-function limitWords(expected: string): string {
+/** A valibot limit (">=0", "<=500") in words (also the preview API's, preview-words.ts). */
+export function limitWords(expected: string): string {
   const m = /^(>=|<=|>|<|!)(.*)$/.exec(expected);
   if (!m) return expected;
   return `${{ ">=": "at least", "<=": "at most", ">": "more than", "<": "less than", "!": "other than" }[m[1]]} ${m[2]}`;
 }
-/** A valibot type ("number", "Array", `("open" | "closed-loop")`) in words. */
-function typeWords(expected: string): string {
+/** A valibot type ("number", "Array", `("open" | "closed-loop")`) in words (also the preview API's, preview-words.ts). */
+export function typeWords(expected: string): string {
   const one = (t: string) => ({ number: "a number", string: "text", boolean: "true or false", Array: "a list", Object: "a group of values", null: "empty (null)", undefined: "absent" })[t] ?? t;
   const parts = expected.replace(/^\((.*)\)$/, "$1").split(" | ");
   return parts.length > 2 ? `one of ${parts.map(one).join(", ")}` : parts.map(one).join(" or ");
 }
 
-/** The value that was stored, for the reader: numbers of a known quantity as a token (rendered in the reader's units). */
-function storedText(input: unknown, key: string | number | undefined, words: DocWords): string | null {
+/** The value that was stored (or sent), for the reader: numbers of a known quantity as a token (rendered in the reader's units). */
+export function storedText(input: unknown, key: string | number | undefined, words: DocWords): string | null {
   if (input === undefined) return null;
   if (typeof input === "number") {
     if (!Number.isFinite(input)) return "a number too large to hold";

@@ -74,6 +74,6 @@ test("editorInput: numbers as stored (out of range too), anything else blank (Na
   expect([unreadable.temperatureC, unreadable.energy.years, unreadable.flowTolerance.plus, unreadable.runs.length, unreadable.duty]).toEqual([NaN, NaN, NaN, 0, null]);
   const fields = problemFieldErrors(problems(JSON.stringify(raw)));
   expect(fields.temperature).toBe("Temperature above ⟦temperature|300⟧? Stored: ⟦temperature|350⟧.");
-  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number; it takes from ⟦diameter|0.0062⟧ to ⟦diameter|5⟧ (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6). Stored: "DN100".');
+  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number; it takes from ⟦diameter|0.0062|bound:⟧ to ⟦diameter|5|bound:⟧ (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6). Stored: "DN100".');
   expect(Object.keys(fields)).toContain("staticLow");
 });

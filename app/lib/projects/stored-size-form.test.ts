@@ -1,7 +1,7 @@
 // The form codec (system-form.ts) on a stored run naming a table or size the catalogue does not list now (old data): the
 // editor's values carry it as stored with the system warning's words and its bore; read back, the form keeps it as stored
 // (table, size name, bore to the last digit) while the size stays as stored, takes a bore typed over it, and still refuses
-// an unlisted size the stored runs it is read against do not hold at that run. Check values: the engine's catalogue (Steel, Schedule 40: 1/2 to 24, no
+// an unlisted size the stored runs it is read against do not hold. Check values: the engine's catalogue (Steel, Schedule 40: 1/2 to 24, no
 // "30"; 4 at 102.26 mm; no table "steel-sch30"), the warning's words (system-input.ts `sizeNotInCatalogue`); bores invented.
 import { describe, expect, it } from "vitest";
 import { PIPE_TABLES } from "~/engine";
@@ -27,7 +27,7 @@ function postedRun(r: PipeRunInput, units = SI_UNITS): Record<string, string> {
 /** The form read against the stored runs (the server's from the database, the page's from its loader). */
 const read = (o: Record<string, string>, units = SI_UNITS, storedRuns: PipeRunInput[] = [unlisted]) => {
   const m = new Map(Object.entries({ ...base, ...(units === US_UNITS ? { temperature: "68", suctionSurfacePressure: "14.696" } : {}), ...o }));
-  return readSystemForm({ get: (k: string) => m.get(k) ?? null }, units, storedRuns);
+  return readSystemForm({ get: (k: string) => m.get(k) ?? null }, units, { runs: storedRuns });
 };
 
 describe("a stored run on a table or size the catalogue does not list now", () => {
@@ -55,7 +55,7 @@ describe("a stored run on a table or size the catalogue does not list now", () =
     expect(read({ ...p, "run.0.diameter": "650" }).input!.runs[0]).toMatchObject({ nominal: "30", diameter: 0.65 });
     expect(read({ ...p, "run.0.diameter": String(701.23456789 * (1 + 0.9e-4)) }).input!.runs[0].diameter).toBe(unlisted.diameter);
     expect(read({ ...p, "run.0.diameter": String(701.23456789 * (1 + 1.1e-4)) }).input!.runs[0].diameter).toBeCloseTo(0.70123456789 * (1 + 1.1e-4), 12);
-    expect(read({ ...p, "run.0.diameter": "" }).errors).toEqual({ "run.0.diameter": "Enter the inner diameter; it takes from 6.20 mm to 5000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6)." }); // blank: said at the field, with the range
+    expect(read({ ...p, "run.0.diameter": "" }).errors).toEqual({ "run.0.diameter": "Enter the inner diameter; it takes from 6.20 mm to 5,000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6)." }); // blank: said at the field, with the range
   });
   it("an unlisted size the stored document does not hold on this run is refused, as before", () => {
     const p = postedRun(unlisted);

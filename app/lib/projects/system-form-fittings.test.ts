@@ -36,7 +36,7 @@ describe("the editor's fittings", () => {
       const fittings = FITTINGS.map((f, i) => ({ id: f.id, count: i + 1 }));
       const input: SystemInput = { ...base, runs: [{ ...base.runs[0], fittings }, ...base.runs.slice(1)] };
       const m = posted(input, sys);
-      const back = readSystemForm({ get: (k: string) => m.get(k) ?? null }, sys, input.runs);
+      const back = readSystemForm({ get: (k: string) => m.get(k) ?? null }, sys, input);
       expect(back.errors).toEqual({});
       expect([...back.input!.runs[0].fittings].sort((a, b) => a.id.localeCompare(b.id))).toEqual([...fittings].sort((a, b) => a.id.localeCompare(b.id)));
     });

@@ -19,7 +19,7 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
   it("refuses 1,500 gpm as ambiguous, with how to write it; takes 1500 and 1,5", () => {
     const bad = read({ dutyFlow: "1,500" });
     expect(bad.input).toBeNull();
-    expect(bad.errors.dutyFlow).toBe("The duty flow “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
+    expect(bad.errors.dutyFlow).toBe("Duty flow “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
     expect(read({ dutyFlow: "1500" }).input!.duty!.flow).toBeCloseTo(1500 * GPM, 9);
     expect(read({ dutyFlow: "1,5" }).input!.duty!.flow).toBeCloseTo(1.5 * GPM, 12);
   });
@@ -29,19 +29,20 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
     expect(read({ hoursPerYear: "8760" }).input!.hoursPerYear).toBe(8760);
   });
   it("refuses hex and binary (Number() would read 0x10 as 16)", () => {
-    expect(read({ dutyFlow: "0x10" }).errors.dutyFlow).toBe("The duty flow must be a number.");
-    expect(read({ dutyFlow: "0b11" }).errors.dutyFlow).toBe("The duty flow must be a number.");
+    // With the range it takes (duty-ranges.ts): 1e-5 to 100 m³/s is 0.1585 to 1585032 gpm (1 gpm = 6.30901964e-5 m³/s).
+    expect(read({ dutyFlow: "0x10" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
+    expect(read({ dutyFlow: "0b11" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
   });
   it("keeps the field's own message for 1e309: the cross-field check never overwrites it", () => {
     const r = read({ dutyFlow: "1e309" });
-    expect(r.errors.dutyFlow).toBe("The duty flow must be a number: “1e309” is out of range.");
+    expect(r.errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
     expect(read({ dutyFlow: "1.5e3" }).errors).toEqual({});
     // A blank flow with a head still gets the cross-field message.
     expect(read({ dutyFlow: "" }).errors.dutyFlow).toBe("Give both duty flow and head, or neither.");
   });
   it("a bad optional field is an error, not its default", () => {
     expect(read({ npshMargin: "abc" }).errors.npshMargin).toBe("The NPSH margin ratio must be a number.");
-    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra ΣK must be a number; it takes from 0 to 10000."); // the field's label and range (run-ranges.ts)
+    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra ΣK must be a number; it takes from 0 to 10,000."); // the field's label and range (run-ranges.ts)
     expect(read({ npshMargin: "" }).input!.npshMargin).toBe(1.1);
   });
   it("load profile and life-cycle fields: an ambiguous number is refused on its field, its pair message does not replace it", () => {

@@ -5,9 +5,13 @@ import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, 
 import { qtExact, qtPair } from "~/engine/quantityText";
 import { countField, decimalField, decimalMessage, readDecimal } from "../shared/decimal";
 import { fmtNum, labelOf, renderDeep, renderUnits, unitOf, type UnitChoice } from "../shared/units";
+import { groupThousands } from "../shared/format";
 import { energyField, readEnergyForm } from "./energy-form";
+import type { EnergySettings } from "./energy";
 import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roughnessNotBelowRadius, staticHighBelowLow, storedSizeNote, SystemInputSchema, tableMaterial, type PipeRunInput, type SystemInput } from "./hydraulics";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, rangeText, ROUGHNESS_RANGE, SHOWN_PRECISION, type NumberRange } from "./run-ranges";
+import { DUTY_FLOW_RANGE, DUTY_HEAD_RANGE, inside, STATIC_HIGH_RANGE, STATIC_LOW_RANGE } from "./duty-ranges";
+import { storedBoreOr, storedSizesKept } from "./stored-sizes";
 
 /** Fittings offered in the editor: every fitting of app/engine/fittings.ts (system-form-fittings.test.ts), so none is lost on a save. */
 export const EDITOR_FITTINGS = [
@@ -52,7 +56,7 @@ function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { option
   const u = opts.unit;
   const si = u ? typedToSI(u.q, unitOf(u.sys, u.q), n) : n;
   if (!(Math.abs(si) <= MAX_MAGNITUDE)) {
-    const bound = u ? `${fmtNum(Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)))} ${labelOf(u.sys, u.q)}` : fmtNum(MAX_MAGNITUDE);
+    const bound = `${groupThousands(fmtNum(u ? Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)) : MAX_MAGNITUDE))}${u ? ` ${labelOf(u.sys, u.q)}` : ""}`; // grouped: "3,280,839,895,013 ft"
     errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: the form takes nothing beyond ±${bound}; check the value${u ? " and its unit" : ""}.`;
     return null;
   }
@@ -90,14 +94,19 @@ export function materialShownFor(r: Pick<PipeRunInput, "pipeTable" | "material">
   return r.material === (tableMaterial(r.pipeTable) ?? DEFAULT_MATERIAL) ? r.material : "";
 }
 
+/** What of the system's stored document a post is read against (the document as the editor shows it: `SystemInput`). */
+export type StoredForForm = { runs: readonly PipeRunInput[]; energy?: EnergySettings };
+
 /**
  * Reads the editor form into a SystemInput. Display units → SI here; the schema then checks
  * ranges. Returns the errors keyed by field name (for messages next to the fields), in the user's units.
- * `storedRuns`: the runs of the system's stored document, at the positions the editor shows them (`editorInput` keeps
- * each at its index) — the server reads them from the database, the page from its loader; only a run stored on a table or
- * size the catalogue does not list now may be posted back on it (decision "storedattack"). Without them, none may.
+ * `stored`: the system's stored document as the editor shows it (`editorInput` for one needing review) — the server reads
+ * it from the database, the page from its loader. Its runs: only a table or size the catalogue does not list now that a
+ * stored run holds may be posted back, on one run each (stored-sizes.ts; decision "storedattack"); without them, none may.
+ * Its energy settings: kept as stored when the post carries no energy fields (an older page, a script, a section posted
+ * alone; `readEnergyForm`), never the defaults in their place (helper "formkeep").
  */
-export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonly PipeRunInput[] = []): { input: SystemInput | null; name: string; errors: FormErrors } {
+export function readSystemForm(f: FormLike, sys: UnitChoice, stored: StoredForForm = { runs: [] }): { input: SystemInput | null; name: string; errors: FormErrors } {
   const errors: FormErrors = {};
   const si = (q: Quantity, key: string, label: string, optional = false) => {
     // Temperature is held to its own range below (an offset unit has no symmetric bound); every other quantity in its unit.
@@ -126,6 +135,13 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
     }
     return x;
   };
+  // A static head or the duty within its range (duty-ranges.ts, common practice; the stored schema has none), in the same words.
+  const ranged = (r: NumberRange, key: string, optional = false): number | null => {
+    const x = inRange(r, key, optional);
+    if (x == null || inside(r, x)) return x;
+    errors[key] ??= outOfRange(r, x);
+    return null;
+  };
   // An entered bore from the catalogue's smallest (run-ranges.ts boreTaken; the schema's own rule is only above zero).
   const bore = (key: string, d: number | null): number | null => {
     if (d != null && d < BORE_RANGE.max && !boreTaken(d)) {
@@ -151,6 +167,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
   // Counts are read as digits only (shared/decimal.ts countField): Number() took 0x10 as 16 runs or fittings, 2.5 as 3,
   // and junk as none at all. The run count is the editor's own hidden field: a bad one drops no run silently.
   const runCount = countField(f.get("runCount"), "runCount", "the number of pipe runs", errors, MAX_RUNS) ?? 0;
+  const kept = storedSizesKept(f, runCount, stored.runs); // the stored run whose unlisted size each posted run keeps
   const runs: PipeRunInput[] = [];
   // The form position (`run.N.`) each run of the document was read from: runs carry no id, and one ticked "remove on
   // save" is left out, so the document's run K is not the form's run K after it (fieldFor places refusals by this).
@@ -172,11 +189,11 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
       try {
         diameter = innerDiameter(pipeTable, nominal);
       } catch {
-        // A table or size the catalogue does not list now, as this run is stored (old data: the editor shows it with the
+        // A table or size the catalogue does not list now, as a stored run holds it (old data: the editor shows it with the
         // system warning's words): kept as stored, on the bore in the inner diameter field (the stored one where the field
         // still shows it). The stored document decides, never a posted field; any other unlisted size is refused.
-        const kept = storedUnlisted(storedRuns[i], pipeTable, nominal);
-        if (kept) diameter = bore(`${p}diameter`, storedBoreOr(kept.diameter, inRange(BORE_RANGE, `${p}diameter`)));
+        const own = kept.get(i);
+        if (own) diameter = bore(`${p}diameter`, storedBoreOr(own.diameter, inRange(BORE_RANGE, `${p}diameter`)));
         else {
           errors[`${p}nominal`] = "Pick a size from this pipe table.";
           sized = false;
@@ -225,12 +242,12 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
   }
   const add = f.get("addRun");
   if (add === "suction" || add === "discharge") runs.push(newRun(add, add === "suction" ? "Suction run" : "Discharge run"));
-  const dutyFlow = si("flow", "dutyFlow", "the duty flow", true);
-  const dutyHead = si("head", "dutyHead", "the duty head", true);
+  const dutyFlow = ranged(DUTY_FLOW_RANGE, "dutyFlow", true);
+  const dutyHead = ranged(DUTY_HEAD_RANGE, "dutyHead", true);
   // A field that already has its own message (text that is not a number) keeps it.
   if ((dutyFlow == null) !== (dutyHead == null)) errors[dutyFlow == null ? "dutyFlow" : "dutyHead"] ??= "Give both duty flow and head, or neither.";
-  const staticLow = si("head", "staticLow", "the static head at low level");
-  const staticHigh = si("head", "staticHigh", "the static head at high level");
+  const staticLow = ranged(STATIC_LOW_RANGE, "staticLow");
+  const staticHigh = ranged(STATIC_HIGH_RANGE, "staticHigh");
   const mode = f.get("mode") === "closed-loop" ? "closed-loop" : "open";
   // Low level is the least lift, high level the most (the fields' hints; the engine refuses a band whose top is below its
   // bottom, system.ts prepareSystem): a pair typed the other way round is refused at the field, never swapped unsaid.
@@ -258,7 +275,7 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, storedRuns: readonl
       minus: (readNumber(f, "tolMinus", errors, { label: "the flow tolerance below the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.minus * 100) / 100,
       plus: (readNumber(f, "tolPlus", errors, { label: "the flow tolerance above the duty", optional: true }) ?? DEFAULT_FLOW_TOLERANCE.plus * 100) / 100,
     },
-    energy: readEnergyForm(f, errors, undefined, formStep),
+    energy: readEnergyForm(f, errors, stored.energy, formStep), // no energy fields posted: the stored settings
   };
   // Water's properties are tabulated for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
   // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would need
@@ -316,25 +333,6 @@ export function roughnessHints(materialId: string, pipeTable: string, sys: UnitC
     aged: m ? show(sys, "roughness", m.roughnessAged) : "",
     mismatch: t ? `${tableName} is ${t.name} (${show(sys, "roughness", t.roughnessNew)} ${labelOf(sys, "roughness")} new); this run's roughness is ${m?.name ?? materialId}'s.` : null,
   };
-}
-
-/**
- * The stored run at a form position when it names exactly this table and size and the catalogue does not list them now
- * (`storedSizeNote`); else null. A listed size, another run's stored size, or a table or size the run was not stored with
- * is never kept this way.
- */
-function storedUnlisted(run: PipeRunInput | undefined, pipeTable: string, nominal: string): PipeRunInput | null {
-  if (!run || run.pipeTable !== pipeTable || run.nominal !== nominal) return null;
-  return storedSizeNote(run) ? run : null;
-}
-
-/**
- * The bore of a run kept on a size the catalogue does not list now: the stored one (m, full precision, from the stored
- * document) where the inner diameter field still shows it to its five significant digits (show()), else the one typed.
- */
-function storedBoreOr(stored: number, typed: number | null): number | null {
-  if (typed == null || !(stored > 0) || !Number.isFinite(stored)) return typed;
-  return Math.abs(typed - stored) <= SHOWN_PRECISION * stored ? stored : typed;
 }
 
 /** A plain number for a field; blank for NaN (a stored value that is missing or not a number, stored-input.ts `editorInput`). */

@@ -8,6 +8,7 @@ import type { Adjustment } from "./candidate-input";
 import { qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, ROUGHNESS_RANGE, type NumberRange } from "./run-ranges";
+import { dutyRangeProblems } from "./duty-ranges";
 
 // Largest magnitude of any number in a system, SI, as of any number typed (shared/decimal.ts).
 export { MAX_MAGNITUDE };
@@ -153,13 +154,29 @@ const systemInputObject = <R extends typeof PipeRunSchema | typeof FrozenPipeRun
  */
 export const SystemInputSchema = systemInputObject(PipeRunSchema);
 
+/** A valibot issue's path to `keys` inside `root` (each key's input and value), for a check that adds issues by hand. */
+function issuePath(root: unknown, keys: readonly (string | number)[]): [v.IssuePathItem, ...v.IssuePathItem[]] {
+  let input = root as Record<string | number, unknown>;
+  return keys.map((key) => {
+    const value = input[key];
+    const item = { type: typeof key === "number" ? "array" : "object", origin: "value", input, key, value } as v.IssuePathItem;
+    input = value as Record<string | number, unknown>;
+    return item;
+  }) as [v.IssuePathItem, ...v.IssuePathItem[]];
+}
+
 /**
- * A system input entered now (the editor's save, the preview API): the stored rules and the static head at high level not
- * below the one at low level in an open system (`staticHighBelowLow`, at `staticHigh`). A new rule on what is typed goes here
- * or into `SystemInputSchema`; a frozen selection reads with `FrozenSystemInputSchema`.
+ * A system input entered now (the editor's save, the preview API): the stored rules; the static heads and the duty within
+ * their ranges (duty-ranges.ts, common practice), and the static head at high level not below the one at low level in an
+ * open system (`staticHighBelowLow`, at `staticHigh`); each run's bore from the catalogue's smallest. A new rule on what is
+ * typed goes here or into `SystemInputSchema`; a frozen selection reads with `FrozenSystemInputSchema`.
  */
 export const SystemInputEntrySchema = v.pipe(
   SystemInputSchema,
+  v.rawCheck(({ dataset, addIssue }) => {
+    if (!dataset.typed) return;
+    for (const p of dutyRangeProblems(dataset.value)) addIssue({ message: p.message, path: issuePath(dataset.value, p.keys) });
+  }),
   v.forward(
     v.check<SystemInput, (i: v.CheckIssue<SystemInput>) => string>(
       (s) => s.mode !== "open" || s.staticHigh >= s.staticLow,
@@ -170,17 +187,8 @@ export const SystemInputEntrySchema = v.pipe(
   // Each run's bore from the catalogue's smallest (run-ranges.ts `boreTaken`): the stored rule is only above zero.
   v.rawCheck(({ dataset, addIssue }) => {
     if (!dataset.typed) return;
-    const runs = dataset.value.runs;
-    runs.forEach((r, i) => {
-      if (boreTaken(r.diameter)) return;
-      addIssue({
-        message: outOfRange(BORE_RANGE, r.diameter),
-        path: [
-          { type: "object", origin: "value", input: dataset.value, key: "runs", value: runs },
-          { type: "array", origin: "value", input: runs, key: i, value: r },
-          { type: "object", origin: "value", input: r, key: "diameter", value: r.diameter },
-        ],
-      });
+    dataset.value.runs.forEach((r, i) => {
+      if (!boreTaken(r.diameter)) addIssue({ message: outOfRange(BORE_RANGE, r.diameter), path: issuePath(dataset.value, ["runs", i, "diameter"]) });
     });
   }),
 );

@@ -2,7 +2,7 @@
 // GET /api/v1/systems/:id and GET /api/v1/systems/:id/search. Workspace-scoped through the
 // services it calls (getSystem → 404 for another workspace's system, 409 for stored inputs that fail the schema).
 import type { Viewer } from "../libraries";
-import { storedRuns, systemWorkbench } from "./projects.server";
+import { storedForEditor, systemWorkbench } from "./projects.server";
 import { readPreviewBody, type PreviewProblem } from "./preview-input";
 import { SEARCH_SHOWN, searchForSystem, type SearchFilters } from "./search.server";
 import { workbenchApiView, workbenchView } from "./workbench-view";
@@ -29,7 +29,7 @@ export async function systemReadView(viewer: Viewer, systemId: number) {
  * 404 whatever the body (its stored runs open no size to this caller).
  */
 export async function systemPreviewView(viewer: Viewer, systemId: number, body: unknown): Promise<{ ok: true; view: ReturnType<typeof workbenchApiView> } | { ok: false; errors: PreviewProblem[]; count: number }> {
-  const read = readPreviewBody(body, await storedRuns(viewer, systemId));
+  const read = readPreviewBody(body, (await storedForEditor(viewer, systemId)).runs);
   if (!read.ok) return read;
   return { ok: true, view: workbenchApiView(workbenchView(await systemWorkbench(viewer, systemId, read.input))) };
 }

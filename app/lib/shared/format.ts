@@ -9,12 +9,11 @@
  */
 export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText";
 
+/** A whole number with thousands separators, e.g. 12345 → "12,345" (the engine's, so a range's end in a refusal groups the same: `groupThousands`). */
+export { fmtInt, groupThousands } from "~/engine/quantityText";
+
 /** An amount in Stripe's minor unit of its currency (money.ts: 0, 2 or 3 decimals), e.g. 4900, "eur" → "49.00 EUR"; 4900, "jpy" → "4,900 JPY". */
 export { fmtMoney } from "./money";
-
-const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
-/** A whole number with thousands separators, e.g. 12345 → "12,345". */
-export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
 
 const DATE_PARTS = new Intl.DateTimeFormat("en-GB", {
   timeZone: "UTC", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit", hourCycle: "h23",
