@@ -101,11 +101,11 @@ describe("a selection at NPSHa 1e-15 m above zero: the CSV keeps the number", ()
 });
 
 describe("the chart's readout and table view: NPSHa above zero and below 0.001 reads '< 0.001' (it read '0.000', as at zero)", () => {
-  it("the value rule, flipping at 0.001 in the chart's unit; zero and below as before", () => {
+  it("the value rule, flipping at 0.001 in the chart's unit; zero and below as the app's NPSHa texts (fmtQAboveZero)", () => {
     expect(formatNpshaValue(1e-15)).toBe("< 0.001");
     expect(formatNpshaValue(0.000999)).toBe("< 0.001");
     expect(formatNpshaValue(0.001)).toBe("0.001");
-    expect(formatNpshaValue(0)).toBe("0");
+    expect(formatNpshaValue(0)).toBe("0.000"); // NPSHa at zero, as the candidates table writes it (decision "npshzero")
     expect(formatNpshaValue(-0.25)).toBe("-0.250");
   });
   it("the cursor's readout names NPSHa '< 0.001 m' on an NPSHa curve a hair above zero", () => {
