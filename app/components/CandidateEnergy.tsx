@@ -7,7 +7,7 @@ import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/l
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
 import { amountText, column, moneySumNote, moneyText, printedSum } from "~/components/energy-numbers";
-import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
+import { cycleFiguresBasis, pumpsBasis, STAGED_BASIS, type PumpsBasis } from "~/lib/projects/power-basis";
 
 /** A candidate with its energy; `adjustment` says how many duty pumps the cycle's power and energy are for (absent: one). */
 type Cand = { id: number; label: string; energy?: Energy | null; adjustment?: { arrangement: "single" | "parallel" | "series"; dutyPumps: number; standbyPumps?: number } };
@@ -40,14 +40,16 @@ export const cycleColumns = (cycle: Cycle) => ({
 
 /**
  * The cycle's energy per year as shown in the table and the printed report, marked when incomplete or when no hours are
- * given; "for 2 duty pumps" after it when `basis` names several (the printed line says so before it instead).
+ * given; after it, with `basis` naming several pumps, whose it is (power-basis.ts `cycleFiguresBasis`): "for 2 duty
+ * pumps", or "for the pumps running at each step" where the cycle is staged by demand (the printed line says so before it instead).
  */
 export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis | null = null): string {
   if (!e?.cycle) return e?.cycleError ?? "—";
   if (e.cycle.totalHours === 0) return "— (no operating hours given)";
   const none = noStepCounted(e.cycle);
   if (none) return `not computed (${none})`;
-  return `${cycleColumns(e.cycle).energy.total} kWh${basis ? ` ${basis.forAll}` : ""}${incompleteMark(e.cycle)}`;
+  const whose = cycleFiguresBasis(basis, cycleStaged(e.cycle));
+  return `${cycleColumns(e.cycle).energy.total} kWh${whose ? ` ${whose.forAll}` : ""}${incompleteMark(e.cycle)}`;
 }
 
 /** The life-cycle cost's plausibility warnings (engine lifeCycleCost.ts; none in selections frozen before them). */
@@ -147,7 +149,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
       {e?.cycle && cycleBasis(c) ? (
         <p className="text-xs text-slate-600" data-testid={`cycle-basis-${c.id}`}>
           {staged
-            ? `${cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the duty pumps running at each step (“Pumps running”), staged by demand${c.adjustment?.standbyPumps ? "; standby pumps never run" : ""}; each motor is one pump's.`
+            ? `${cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for ${STAGED_BASIS} (“Pumps running”), staged by demand${c.adjustment?.standbyPumps ? "; standby pumps never run" : ""}; each motor is one pump's.`
             : <>{cycleBasis(c)!.arrangement}: flow, head, shaft power, electrical input and energy are for the {cycleBasis(c)!.together}{c.adjustment?.standbyPumps ? " (standby pumps do not run)" : ""}; each motor is one pump&apos;s.</>}
         </p>
       ) : null}

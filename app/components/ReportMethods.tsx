@@ -6,7 +6,7 @@
 // before the band's corners, NPSH over the band or verdicts says what it was judged on). Frozen text is already in the reader's units.
 import { HI_VISCOSITY_SOURCE, VISCOSITY_B_MAX, VISCOSITY_B_NO_CORRECTION } from "~/engine";
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
-import { pumpsBasis } from "~/lib/projects/power-basis";
+import { pumpsBasis, STAGED_BASIS } from "~/lib/projects/power-basis";
 import { fmtNumExact, fmtPressure, fmtQ, type UnitChoice } from "~/lib/shared/units";
 import { fmtUtc } from "~/lib/shared/format";
 
@@ -48,7 +48,10 @@ export function arrangementLine(f: FrozenSelection): string | null {
   const b = pumpsBasis(f.adjustment);
   if (!b) return null;
   const how = f.adjustment.arrangement === "parallel" ? "flows added at equal head" : "heads added at equal flow";
-  return `${b.arrangement}: one curve for the duty pumps (${how}); efficiency, NPSH, the position against BEP, the largest power on the curve and the motor (rating, overload check, load) are one pump's, each pump having its own motor; shaft power, electrical input and energy are for the ${b.together}, identical pumps sharing the duty equally (common practice); standby pumps do not run.`;
+  // A duty cycle staged by demand runs fewer pumps at its low steps: its energy is theirs (power-basis.ts STAGED_BASIS), as the table says.
+  const staged = !!f.energy?.cycle?.steps.some((st) => st.pumpsRunning != null);
+  const energy = staged ? `shaft power, electrical input and energy at the operating point are for the ${b.together} and over the duty cycle for ${STAGED_BASIS} (staged by demand)` : `shaft power, electrical input and energy are for the ${b.together}`;
+  return `${b.arrangement}: one curve for the duty pumps (${how}); efficiency, NPSH, the position against BEP, the largest power on the curve and the motor (rating, overload check, load) are one pump's, each pump having its own motor; ${energy}, identical pumps sharing the duty equally (common practice); standby pumps do not run.`;
 }
 
 /** Where the frozen curve data came from, with a traced curve's source and caution. */

@@ -3,6 +3,7 @@ import { lccRatesText, lccShown, noStepCounted, pumpsRunningText, type Candidate
 import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, cycleStaged, incompleteMark, lccText } from "~/components/CandidateEnergy";
 import { stepName } from "~/components/cycle-notes";
 import { PARALLEL_STAGING_RULE } from "~/engine";
+import { cycleFiguresBasis } from "~/lib/projects/power-basis";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleNoteLines } from "~/components/cycle-notes";
 import type { UnitChoice } from "~/lib/shared/units";
@@ -11,7 +12,8 @@ type Cand = Parameters<typeof cycleBasis>[0] & { energy?: CandidateEnergy | null
 
 export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSystem: UnitChoice; currency: string }) {
   const e = c.energy;
-  const basis = cycleBasis(c);
+  // Whose the cycle's energy is (power-basis.ts): the pumps running at each step when staged, else the duty pumps together.
+  const whose = cycleFiguresBasis(cycleBasis(c), cycleStaged(e?.cycle));
   const lcc = lccShown(e);
   if (!e) return null; // selections frozen before load profiles have none
   return (
@@ -23,9 +25,9 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
         Control: {e.controlLabel}. Profile: {e.profileSource === "common-practice" ? <strong>common practice</strong> : "given"} — {e.profileLabel}.
       </p>
       {/* Printed as one summary line (the report stays on two pages); the steps, chart and assumptions on screen and in the exports.
-          A staged cycle's energy is of the pumps running at each step, not of every duty pump together. */}
+          A staged cycle's energy is of the pumps running at each step, not of every duty pump together (the table's words). */}
       <p className="hidden text-xs print:block" data-testid="energy-print">
-        {e.cycle ? `Energy per year${cycleStaged(e.cycle) ? ", the pumps running at each step," : basis ? `, ${basis.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
+        {e.cycle ? `Energy per year${whose ? `, ${whose.together},` : ""} over ${e.cycle.steps.length} step${e.cycle.steps.length === 1 ? "" : "s"}${cycleHoursText([e.cycle])}: ${cycleEnergyText(e)}` : e.cycleError}
         {/* With the rates it was computed with (years, tariff escalation, discount rate), as the screen's assumption line. */}
         {e.lcc || e.costMissing ? `; life-cycle cost (present value): ${lccText(e, currency, true)}` : ""}
         {lcc ? ` (${lcc.source})` : ""}.

@@ -139,7 +139,8 @@ export function FieldCheckChart({ r, unitSystem, compact }: { r: CheckResult; un
       description={`The delivered point (${delivered}), the pump curve ${r.speed.rescaled ? "rescaled to the measured speed" : "as compared"} and the curve as selected (dashed), each with its operating point on the system curve where it is drawn${r.duty ? ", and the design duty as a cross" : ""}${pumps.some((p) => p.id === "band") ? ", and the inferred flow band" : ""}.`}
       system={c.system ? { design: c.system } : undefined}
       pumps={pumps}
-      duty={r.duty}
+      // The design duty's label never reads as the delivered flow beside it (candidate-figures.ts dutyFlowText, as the report).
+      duty={r.duty ? { ...r.duty, apartFrom: [r.delivered.flow] } : r.duty}
       flowMax={c.flowMax}
       compact={compact}
     />

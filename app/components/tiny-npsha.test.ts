@@ -109,7 +109,7 @@ describe("the chart's readout and table view: NPSHa above zero that three decima
     expect(formatNpshaValue(0.0004999)).toBe("< 0.001");
     expect(formatNpshaValue(0.0005001)).toBe("0.001"); // decision "npshone" (0.000999 read '< 0.001')
     expect(formatNpshaValue(0.001)).toBe("0.001");
-    expect(formatNpshaValue(0)).toBe("0");
+    expect(formatNpshaValue(0)).toBe("0.000"); // NPSHa at zero, as the candidates table writes it (decision "npshzero")
     expect(formatNpshaValue(-0.25)).toBe("-0.250");
   });
   it("the cursor's readout names NPSHa '< 0.001 m' on an NPSHa curve a hair above zero", () => {

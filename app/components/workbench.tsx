@@ -94,8 +94,9 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
   if (a.method === "speed" || a.method === "trim") {
     const ratio = r?.ratio ?? 1;
     const pub = publishedOf(a.method, ratio, { speed: r?.speed ?? null, diameter: r?.diameter ?? null });
-    // In the reader's units: a trimmed impeller in mm or inches (its step is a whole millimetre whatever the unit shown).
-    const shown = (x: number) => renderUnits(settingToken(a.method as "speed" | "trim", x, pub), units);
+    // In the reader's units: a trimmed impeller in mm or inches (its step is a whole millimetre whatever the unit shown);
+    // where the solved value and its rounding are shown, the whole mm beside inches (setting-step.ts: "Ø6.65 in [169 mm]").
+    const shown = (x: number) => renderUnits(settingToken(a.method as "speed" | "trim", x, pub, solvedToo), units);
     const set = shown(ratio);
     // The value solved before rounding: in the candidates table's "Adjustment" (and the report's), not in every chart label.
     const solved = solvedToo && r?.solvedRatio != null && r.solvedRatio !== ratio ? `solved ${shown(r.solvedRatio)}, rounded up to keep the duty` : null;
@@ -113,6 +114,8 @@ export function adjustmentText(c: { adjustment: Cand["adjustment"]; result: Cand
 export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { view: WorkbenchView; unitSystem: UnitChoice; duty: { flow: number; head: number } | null; title: string; compact?: boolean }) {
   const ev = view.evaluation;
   const pumps = view.candidates.map((c, i) => candidateSeries(c, i, unitSystem)).filter((x): x is PumpSeries => x != null);
+  // The duty's label is written apart from every flow delivered against it (each candidate's band edges), as the report's duty row.
+  const apartFrom = view.candidates.flatMap((c) => (c.result?.band ?? []).map((b) => b.flow));
   return (
     <DutyChart
       unitSystem={unitSystem}
@@ -121,7 +124,7 @@ export function WorkbenchChart({ view, unitSystem, duty, title, compact }: { vie
       system={ev ? { design: ev.flows.map((q, i) => ({ flow: q, y: ev.design[i] })), low: ev.flows.map((q, i) => ({ flow: q, y: ev.low[i] })), high: ev.flows.map((q, i) => ({ flow: q, y: ev.high[i] })) } : undefined}
       pumps={pumps}
       npsha={ev?.npsha}
-      duty={duty}
+      duty={duty ? { ...duty, apartFrom } : null}
       flowMax={view.flowMax}
       compact={compact}
     />

@@ -19,6 +19,8 @@ import { EngineInputError } from "./errors.ts";
 export const QUANTITY_TOKEN = /⟦([A-Za-z]+)\|([^⟦⟧|]*)(?:\|([^⟦⟧|]*))?⟧/g;
 /** Marks the values of a {@link qtLimit} token. */
 const LIMIT_MARK = "limit:";
+/** Marks a {@link qtAlsoIn} token, before the unit it is also written in and the values it reads apart from. */
+const ALSO_MARK = "also:";
 /** Marks a {@link qtAboveZero} token (a reading judged by its side of zero), before the values it reads apart from. */
 const ZERO_MARK = "zero:";
 /** Marks the values of a {@link qtBound} token (a range's end in a refusal: a limit, its whole part grouped). */
@@ -110,6 +112,22 @@ export function qtLimit(quantity: Quantity, si: number, readings: readonly (numb
  */
 export function qtBound(quantity: Quantity, si: number, readings: readonly (number | null | undefined)[]): string {
   return apartToken(quantity, si, readings, BOUND_MARK);
+}
+
+/**
+ * A quantity token for a value set in steps of one unit (a trimmed impeller in whole mm, setting-step.ts), read in the
+ * reader's unit and, where that is another, in the step's unit too, in brackets as dual dimensions are written: "Ø169 mm"
+ * in mm, "Ø6.65 in [169 mm]" in inches, so a text that says "the next whole mm" shows the whole mm it names. Each reading
+ * as {@link qtExact}'s, apart from `against` (the steps beside it).
+ * @param quantity physical quantity of the value (unitless id)
+ * @param si the value in SI
+ * @param unit the step's unit id (e.g. "mm"), one of the quantity's units
+ * @param against the values it must read apart from (SI; missing or non-finite ones are left out)
+ */
+export function qtAlsoIn(quantity: Quantity, si: number, unit: string, against: readonly (number | null | undefined)[]): string {
+  if (!Number.isFinite(si)) return qt(quantity, si);
+  const others = against.filter((a): a is number => a != null && Number.isFinite(a)).map(String);
+  return `⟦${quantity}|${String(si)}|${ALSO_MARK}${unit}:${others.join(",")}⟧`;
 }
 
 /**
@@ -343,10 +361,17 @@ export function renderQuantities(text: string, units: UnitPreset): string {
     const bound = apart?.startsWith(BOUND_MARK) ?? false;
     const limit = bound || (apart?.startsWith(LIMIT_MARK) ?? false);
     const zero = apart?.startsWith(ZERO_MARK) ?? false;
-    const list = apart === undefined ? undefined : apart.slice(bound ? BOUND_MARK.length : limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
-    const against = list === undefined || ((zero || bound) && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
+    // qtAlsoIn: "also:mm:0.168,0.17" — the step's unit (one of the quantity's), then the values to read apart from.
+    const also = apart?.startsWith(ALSO_MARK) ? /^also:([^:]+):(.*)$/.exec(apart) : null;
+    if (apart?.startsWith(ALSO_MARK) && (!also || !UNITS[q].some((d) => d.id === also[1]))) return whole;
+    const list = also ? also[2] : apart === undefined ? undefined : apart.slice(bound ? BOUND_MARK.length : limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
+    const against = list === undefined || ((zero || bound || also) && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
     if (!against.every(Number.isFinite)) return whole;
     try {
+      if (also) {
+        const shown = fmtQuantityExact(units, q, x, against);
+        return units[q] === also[1] ? shown : `${shown} [${fmtQuantityExact({ ...units, [q]: also[1] }, q, x, against)}]`;
+      }
       if (zero) return fmtQuantityAboveZero(units, q, x, against);
       if (bound) return groupThousands(fmtQuantityExact(units, q, x, against, true));
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);

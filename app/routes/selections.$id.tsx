@@ -18,7 +18,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks } from "~/components/SelectionFieldChecks";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtPressure, fmtQ } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtPressure, fmtQ, fmtQZero } from "~/lib/shared/units";
 import { DEFAULT_FLOW_TOLERANCE, type FlowTolerance } from "~/engine";
 import { fmtPctSide } from "~/engine/quantityText";
 import { fmtDate } from "~/lib/shared/format";
@@ -153,7 +153,8 @@ export default function SelectionReport() {
                   {fmtHead(sys, input.staticLow)} to {fmtHead(sys, input.staticHigh)}
                 </dd>
                 <dt className="text-slate-600">Pressure difference</dt>
-                <dd>{fmtPressure(sys, input.pressureDifference)}</dd>
+                {/* None at all reads "0 kPa"; a tiny one never reads as zero (units.ts fmtQZero). */}
+                <dd data-testid="report-pressure-difference">{fmtQZero(sys, "pressure", input.pressureDifference)}</dd>
               </>
             ) : null}
             <dt className="text-slate-600">Suction surface</dt>

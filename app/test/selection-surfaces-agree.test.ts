@@ -19,9 +19,10 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, type Adjustment, type SystemInp
 import type { FrozenSelection } from "~/lib/projects/stored-selection";
 import { pumpsBasis } from "~/lib/projects/power-basis";
 import { demoLibrary, M3H, viewerOfUser } from "~/lib/projects/test-kit";
-import { fmtFlow, fmtPct, fmtPower, renderDeep, renderUnits, SI_UNITS, US_UNITS, type UnitChoice } from "~/lib/shared/units";
+import { fmtFlow, fmtHead, fmtPct, fmtPower, renderDeep, renderUnits, SI_UNITS, US_UNITS, type UnitChoice } from "~/lib/shared/units";
 import { verdictLabel } from "~/engine";
-import { bepPositionText, loadText } from "~/components/candidate-figures";
+import { bepPositionText, dutyFlowText, loadText } from "~/components/candidate-figures";
+import { cycleColumns, cycleHoursText } from "~/components/CandidateEnergy";
 import { totalPowerText } from "~/components/power-text";
 import { moneyText } from "~/components/energy-numbers";
 import { adjustmentText } from "~/components/workbench";
@@ -52,9 +53,14 @@ const CASES: Record<string, Case> = {
   meets: { input: { ...booster(), duty: { flow: 42.35 * M3H, head: 40 } }, adj: DEFAULT_ADJUSTMENT },
   // 26–28 m: the pump runs past its curve's end at both edges, no operating point, no figures to name a currency.
   none: { input: { ...booster(), staticLow: 26, staticHigh: 28 }, adj: DEFAULT_ADJUSTMENT, priceCents: 250_000 },
+  // Trimmed, and oversized as published (its savings name a trim), for a US reader: the whole mm a site sets beside inches.
+  trimUs: { input: { ...booster(), duty: { flow: 34 * M3H, head: 35 } }, adj: { ...DEFAULT_ADJUSTMENT, method: "trim" }, us: true },
+  oversizedUs: { input: { ...booster(), duty: { flow: 34 * M3H, head: 35 } }, adj: DEFAULT_ADJUSTMENT, us: true },
+  // A pressure difference of 1e-4 Pa (1e-7 kPa): tiny, not zero (the others have none at all).
+  tinyDp: { input: { ...booster(), pressureDifference: 1e-4 }, adj: DEFAULT_ADJUSTMENT },
 };
 
-type Got = { f: FrozenSelection; units: UnitChoice; pages: SelectionPages; system: string; json: Record<string, unknown>; api: Record<string, unknown>; preview: Record<string, unknown>; currency: string };
+type Got = { f: FrozenSelection; units: UnitChoice; pages: SelectionPages; system: string; json: Record<string, unknown>; api: Record<string, unknown>; preview: Record<string, unknown>; currency: string; apiAsReader: Record<string, unknown> };
 const got: Record<string, Got> = {};
 
 beforeAll(async () => {
@@ -76,7 +82,9 @@ beforeAll(async () => {
     const system = (await loadedPage(who, sysPage, "/systems/:id", `/systems/${systemId}`, { id: String(systemId) })).html;
     const api = await call(apiSystem.loader as never, { path: `/api/v1/systems/${systemId}`, params: { id: String(systemId) }, headers: auth });
     const preview = await call(apiPreview.action as never, { path: `/api/v1/systems/${systemId}/preview`, params: { id: String(systemId) }, method: "POST", headers: { ...auth, "content-type": "application/json" }, body: JSON.stringify({ input: c.input }) });
-    expect([api.status, preview.status]).toEqual([200, 200]);
+    // The read API as the reader (session: text in the reader's units; a token reads SI).
+    const asReader = await call(apiSystem.loader as never, { path: `/api/v1/systems/${systemId}`, params: { id: String(systemId) }, cookie: who.cookie });
+    expect([api.status, preview.status, asReader.status]).toEqual([200, 200, 200]);
     const id = await selectCandidate(v, added.id, `Selection ${name}`, "");
     const json = await call(selJson.loader as never, { path: `/selections/${id}/export.json`, cookie: who.cookie, params: { id: String(id) } });
     const f = (await getSelection(v, id)).frozen;
@@ -85,6 +93,7 @@ beforeAll(async () => {
       json: (typeof json.body === "string" ? JSON.parse(json.body) : json.body) as Record<string, unknown>,
       api: (api.body as { candidates: Record<string, unknown>[] }).candidates[0], preview: (preview.body as { candidates: Record<string, unknown>[] }).candidates[0],
       currency: "EUR", // the workspace's (harness default)
+      apiAsReader: (asReader.body as { candidates: Record<string, unknown>[] }).candidates[0],
     };
   }
 }, 300_000);
@@ -251,4 +260,116 @@ describe("the band's flow beside a short verdict (rounding must not hide which s
 test("the US reader's tables are in US units", () => {
   expect(figureCell(got.us.pages.html, "Operating flow (design curve)")).toMatch(/ gpm$/);
   expect(renderDeep("⟦flow|0.01⟧", US_UNITS)).toBe(fmtFlow(US_UNITS, 0.01));
+});
+
+describe("whose the duty cycle's energy is: one wording on every surface (pumps in parallel staged by demand)", () => {
+  test("2 + 1 in parallel: the tables, the printed line, the methods and the CSV's basis say the pumps running at each step, never 'for 2 duty pumps'", () => {
+    const g = got.parallel;
+    const cycle = g.f.energy!.cycle!, rows = csvFigures(g.pages.csv), whose = "the pumps running at each step";
+    expect(cycle.steps.some((st) => st.pumpsRunning === 1)).toBe(true); // control: one of the two runs alone at some step
+    for (const page of [g.pages.html, g.system]) {
+      expect(figureCell(page, `Energy per year over the duty cycle${cycleHoursText([cycle])}`)).toBe(`${cycleColumns(cycle).energy.total} kWh for ${whose}`);
+      // At the operating point both duty pumps run: that total stays theirs (control: the wording is the cycle's alone).
+      expect(figureCell(page, `Energy per year at the operating point × 4000 h/yr (electrical, every running hour there)`)).toMatch(/ kWh for 2 duty pumps$/);
+    }
+    expect(textOf(/data-testid="energy-print"[^>]*>([\s\S]*?)<\/p>/.exec(g.pages.html)![1])).toContain(`Energy per year, ${whose}, over ${cycle.steps.length} steps`);
+    expect(g.pages.text).toContain(`and over the duty cycle for ${whose} (staged by demand)`); // the report's methods
+    for (const k of ["cycle_annual_energy_electrical", "cycle_energy_cost_per_year", "lcc_energy_present_value"]) expect(rows.get(k)?.[2], k).toBe(whose);
+    expect(rows.get("purchase_price")?.[2]).toBe("all 2 pumps in parallel + 1 standby");
+    expect(rows.get("lcc_total_present_value")?.[2]).toBe(`purchase: all 2 pumps in parallel + 1 standby; energy: ${whose}`);
+    expect(rows.get("annual_energy_electrical")?.[2]).toBe("2 duty pumps together");
+  });
+});
+
+/** The chart's tables as rendered: the screen's "Table view" and the printed copy (DutyChart.tsx), each as its text and its points rows' cells. */
+const chartTables = (html: string) => html.split('data-tables=""').slice(1).map((t) => {
+  const part = t.slice(0, t.indexOf("</div>"));
+  const points = part.slice(part.indexOf('data-table="points"'));
+  const rows = [...points.matchAll(/<tr><th[^>]*scope="row">((?:(?!<\/th>).)*)<\/th>((?:<td[^>]*>(?:(?!<\/td>).)*<\/td>)+)<\/tr>/g)].map((m) => [textOf(m[1]), ...[...m[2].matchAll(/<td[^>]*>(.*?)<\/td>/g)].map((c) => textOf(c[1]))]);
+  return { text: textOf(part), rows };
+});
+const legendOf = (html: string) => textOf(html.slice(html.indexOf('data-legend=""'), html.indexOf("data-table-view")));
+const numberPart = (text: string) => text.split(" ")[0];
+
+describe("the chart reads as the tables: the unit-aware formatters, the duty apart from the flows delivered against it", () => {
+  test("short by 0.0074 m³/h: the legend and both chart tables print the duty 42.36 m³/h, as the report's duty row, never 42.4", () => {
+    const g = got.short;
+    expect(g.f.result.verdict!.status).toBe("short"); // control
+    const want = dutyFlowText(SI_UNITS, g.f.system.input.duty!.flow, g.f.result.band!.map((b) => b.flow));
+    expect(want).toBe("42.36 m³/h");
+    for (const page of [g.pages.html, g.system]) {
+      expect(legendOf(page)).toContain(`Duty point ${want} at 40.0 m`);
+      const tables = chartTables(page);
+      expect(tables).toHaveLength(2);
+      for (const t of tables) expect(t.rows.find((r) => r[0] === "Duty point (required)")?.slice(1, 3)).toEqual(["42.36", "40.0"]);
+    }
+  });
+  test.each(["us", "trimUs"])("%s: a US reader's chart tables and legend are in US units, each number as the candidates table prints it", (name) => {
+    const g = got[name];
+    const r = g.f.result, fig = r.figures!, u = US_UNITS;
+    const label = `${renderUnits(g.f.pump.label, u)}${adjustmentText({ adjustment: g.f.adjustment, result: renderDeep(r, u) }, u)} — ${verdictLabel(r.verdict!.status)}`;
+    for (const page of [g.pages.html, g.system]) {
+      const tables = chartTables(page);
+      expect(tables).toHaveLength(2);
+      for (const t of tables) {
+        expect(t.text).toMatch(/Flow \(gpm\)/); // control: the table is there, in US units
+        expect(t.text, "an SI unit word in a US reader's chart table").not.toMatch(/m³\/h|kPa|\bkW\b|\bmm\b| m\b|\(m\)/);
+        const op = t.rows.find((x) => x[0] === `1. ${label} — operating point`)!;
+        expect(op.slice(1, 4)).toEqual([numberPart(fmtFlow(u, r.operating!.flow)), numberPart(fmtHead(u, r.operating!.head)), numberPart(fmtPct(fig.efficiency))]);
+        const duty = t.rows.find((x) => x[0] === "Duty point (required)")!;
+        expect(duty[1]).toBe(numberPart(dutyFlowText(u, g.f.system.input.duty!.flow, r.band!.map((b) => b.flow))));
+      }
+      expect(legendOf(page)).toContain(`${fmtFlow(u, r.operating!.flow)} at ${fmtHead(u, r.operating!.head)} · η ${fmtPct(fig.efficiency)}`);
+      expect(legendOf(page)).not.toMatch(/m³\/h|kPa|\bkW\b|\bmm\b| m\b/);
+    }
+  });
+});
+
+/** The report's "Pressure difference" as printed. */
+const pressureDifference = (html: string) => textOf(/<dt[^>]*>Pressure difference<\/dt>(?:<!--.*?-->)*<dd[^>]*>(.*?)<\/dd>/.exec(html)![1]);
+
+describe("the report's pressure difference: none reads 0, a tiny one never reads as zero", () => {
+  test("zero (SI and US): '0 kPa', '0 psi', not a rounded '0.000'", () => {
+    expect(got.single.f.system.input.pressureDifference).toBe(0); // control
+    expect(pressureDifference(got.single.pages.html)).toBe("0 kPa");
+    expect(pressureDifference(got.us.pages.html)).toBe("0 psi");
+  });
+  test("1e-4 Pa: 0.0000001 kPa, not zero and no exponent", () => {
+    const shown = pressureDifference(got.tinyDp.pages.html);
+    expect(shown).toBe("0.0000001 kPa"); // 1e-4 Pa = 1e-7 kPa (SI prefixes)
+    expect(shown).not.toMatch(/e[-+]?\d/);
+    expect(Number(numberPart(shown))).toBeGreaterThan(0);
+  });
+});
+
+describe("a trim is set in whole mm: a US reader sees the whole mm wherever the rounding to it is said", () => {
+  const mmOf = (g: Got) => Math.round(g.f.result.diameter! * 1000);
+  test("SI: the Adjustment cell, the notes, CSV, JSON and the read API write the diameter in mm alone", () => {
+    const g = got.trim;
+    const mm = mmOf(g);
+    expect(g.f.result.diameter! * 1000).toBeCloseTo(mm, 6); // control: whole mm, rounded up (setting-step.ts)
+    for (const page of [g.pages.html, g.system]) expect(figureCell(page, "Adjustment")).toMatch(new RegExp(`^trimmed to Ø${mm} mm \\(solved Ø[\\d.]+ mm, rounded up to keep the duty\\)$`));
+    const note = csvFigures(g.pages.csv).get("ratio_note")![0];
+    expect(note).toContain(`set and judged at Ø${mm} mm: rounded up to the next whole mm`);
+    expect(note).not.toContain("[");
+    expect((g.json.result as { ratioNote: string }).ratioNote).toBe(note);
+    expect(res(g.api).ratioNote).toBe(note);
+  });
+  test.each(["trimUs", "oversizedUs"])("%s: every text saying 'whole mm' shows the whole mm beside inches (table, report, read API as the reader); CSV and JSON in SI", (name) => {
+    const g = got[name];
+    const texts = { system: textOf(g.system), report: g.pages.text, api: JSON.stringify(g.apiAsReader) };
+    for (const [where, text] of Object.entries(texts)) {
+      const at = [...text.matchAll(/whole mm/g)].map((m) => m.index!);
+      expect(at.length, where).toBeGreaterThan(0); // control: the rounding is said there
+      for (const i of at) expect(text.slice(Math.max(0, i - 160), i), `${where}: …${text.slice(i - 160, i + 8)}`).toMatch(/Ø[\d.]+ in \[\d+ mm\]/);
+    }
+    if (name === "trimUs") {
+      const mm = mmOf(g);
+      for (const page of [g.pages.html, g.system]) expect(figureCell(page, "Adjustment")).toMatch(new RegExp(`^trimmed to Ø[\\d.]+ in \\[${mm} mm\\] \\(solved Ø[\\d.]+ in \\[[\\d.]+ mm\\], rounded up to keep the duty\\)$`));
+      expect(csvFigures(g.pages.csv).get("ratio_note")![0]).toContain(`set and judged at Ø${mm} mm: rounded up to the next whole mm`);
+    } else {
+      expect(g.f.result.verdict!.status).toBe("oversized"); // control: its savings name a trim "the next whole mm up"
+      expect(csvFigures(g.pages.csv).get("verdict_reason_1")?.[0] ?? "").not.toContain(" in [");
+    }
+  });
 });

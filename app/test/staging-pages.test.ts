@@ -57,7 +57,7 @@ describe("2 pumps in parallel (+1 standby): pumps running at each step, and the 
     expect(t).toMatch(/25 % 1 of 2 /);
     expect(t).toMatch(/90 % 2 of 2 /);
     expect(t).toContain(`${RULE}.`);
-    expect(t).toMatch(/for the duty pumps running at each step \(“Pumps running”\), staged by demand; standby pumps never run/);
+    expect(t).toMatch(/for the pumps running at each step \(“Pumps running”\), staged by demand; standby pumps never run/);
   });
 
   test("the report: the column on screen, and the printed line with each step's pumps and the rule", () => {
@@ -79,7 +79,7 @@ describe("2 pumps in parallel (+1 standby): pumps running at each step, and the 
     expect(Number(steps[0][col("shaft_power_per_pump_w")])).toBeCloseTo(Number(steps[0][col("shaft_power_pumps_running_w")]), 6); // one pump running
     expect(Number(steps[1][col("shaft_power_per_pump_w")])).toBeCloseTo(Number(steps[1][col("shaft_power_pumps_running_w")]) / 2, 6); // two equal pumps
     expect(csv.some((r) => r[0] === "figures" && /^cycle_assumption_\d+$/.test(r[1]) && r[2] === `${RULE}.`)).toBe(true);
-    expect(csv.some((r) => r[0].startsWith("# 2 pumps in parallel + 1 standby:") && r[0].includes("the duty cycle of the duty pumps running at each step (pumps_running, staged by demand"))).toBe(true);
+    expect(csv.some((r) => r[0].startsWith("# 2 pumps in parallel + 1 standby:") && r[0].includes("the duty cycle of the pumps running at each step (pumps_running, staged by demand"))).toBe(true);
   });
 });
 

@@ -6,7 +6,7 @@
 import { CHART_COLORS as C } from "./colors.ts";
 import { interpolateAt } from "./curves.ts";
 import type { DisplayUnits } from "./display-units.ts";
-import { formatValue } from "./format.ts";
+import { formatKindValue, formatNpshaValue, formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type PanelLayout } from "./model.ts";
 import { clamp, r1 } from "./paths.ts";
 import { readoutPowerNote, readoutRows, type ReadoutRow } from "./readout.ts";
@@ -177,7 +177,9 @@ function ReadoutLine({
             ? row.headText
             : row.values[c.k as keyof ReadoutRow["values"]] === undefined
               ? ""
-              : formatValue(row.values[c.k as keyof ReadoutRow["values"]]);
+              : row.key === "npsha"
+                ? formatNpshaValue(row.values[c.k as keyof ReadoutRow["values"]])
+                : formatKindValue(c.k as keyof ReadoutRow["values"], row.values[c.k as keyof ReadoutRow["values"]]);
         return (
           <text key={c.k} x={r1(cx)} y={r1(y)} textAnchor="end" fill={C.title} style={{ fontVariantNumeric: "tabular-nums" }}>
             {text}

@@ -3,7 +3,7 @@
  * many curves), where a box inside the SVG would hide too much of the plot. Hidden from screen
  * readers: the live region in DutyChart announces the same values.
  */
-import { formatNpshaValue, formatValue } from "./format.ts";
+import { formatKindValue, formatNpshaValue, formatValue } from "./format.ts";
 import type { ChartModel } from "./model.ts";
 import { readoutPowerNote, readoutRows } from "./readout.ts";
 import { Swatch } from "./Swatches.tsx";
@@ -48,7 +48,7 @@ export function HtmlReadout({ model, flow, hidden }: { model: ChartModel; flow: 
                     ? r.headText
                     : r.values[k] === undefined
                       ? ""
-                      : (r.key === "npsha" ? formatNpshaValue : formatValue)(r.values[k])}
+                      : r.key === "npsha" ? formatNpshaValue(r.values[k]) : formatKindValue(k, r.values[k])}
                 </td>
               ))}
             </tr>

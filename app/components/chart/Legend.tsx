@@ -3,7 +3,7 @@
  * emphasises it) with its badge and operating point, then a key to the other curves and marks.
  */
 import { CHART_COLORS as C } from "./colors.ts";
-import { formatValue } from "./format.ts";
+import { formatKindValue, formatValue } from "./format.ts";
 import type { ChartModel, DisplayPump } from "./model.ts";
 import { MarkSwatch, Swatch } from "./Swatches.tsx";
 
@@ -13,7 +13,7 @@ export function opSummary(p: DisplayPump, model: ChartModel): string | null {
   if (!op) return model.system ? "no operating point on the system curve" : null;
   const u = model.units;
   const parts = [`${formatValue(op.flow)} ${u.flow.label} at ${formatValue(op.head)} ${u.head.label}`];
-  if (op.efficiency !== null) parts.push(`η ${formatValue(op.efficiency)} %`);
+  if (op.efficiency !== null) parts.push(`η ${formatKindValue("efficiency", op.efficiency)} %`);
   if (op.power !== null) parts.push(`${formatValue(op.power)} ${u.power.label}${p.powerBasis ? ` (${p.powerBasis})` : ""}`);
   if (op.npshr !== null) parts.push(`NPSHr ${formatValue(op.npshr)} ${u.npsh.label}`);
   return parts.join(" · ");
@@ -89,8 +89,7 @@ export function Legend({
         )}
         {model.duty && (
           <li className="inline-flex items-center gap-1">
-            <MarkSwatch kind="duty" /> Duty point {formatValue(model.duty.flow)} {model.units.flow.label} at{" "}
-            {formatValue(model.duty.head)} {model.units.head.label}
+            <MarkSwatch kind="duty" /> Duty point {model.duty.flowText} at {model.duty.headText}
           </li>
         )}
         {hasOp && (

@@ -1,11 +1,12 @@
 /**
  * The table view: the chart's numbers as accessible HTML tables (caption, scoped headers) —
  * every curve at about eight flows over the axis, then the duty, operating points and BEPs.
- * Shown under "Table view" on screen and always in print.
+ * Shown under "Table view" on screen and always in print. Numbers as the app's unit-aware formatters print them in the
+ * reader's units (format.ts), the duty's flow apart from the flows delivered against it (`dutyFlowText`).
  */
 import type { ReactNode } from "react";
 import { interpolateAt } from "./curves.ts";
-import { formatNpshaValue, formatValue } from "./format.ts";
+import { formatKindValue, formatNpshaValue, formatValue, numberOf } from "./format.ts";
 import { pumpSeries, type ChartModel, type DisplayPump } from "./model.ts";
 import { curvePowerHeading, powerHeading } from "./power-basis.ts";
 
@@ -32,8 +33,8 @@ export function ChartTables({ model }: { model: ChartModel }) {
     pointRows.push(
       <tr key="duty">
         <th className={td + " text-left font-semibold"} scope="row">Duty point (required)</th>
-        <td className={td}>{formatValue(model.duty.flow)}</td>
-        <td className={td}>{formatValue(model.duty.head)}</td>
+        <td className={td}>{numberOf(model.duty.flowText, u.flow.label)}</td>
+        <td className={td}>{numberOf(model.duty.headText, u.head.label)}</td>
         <td className={td}>—</td>
         <td className={td}>—</td>
         <td className={td}>—</td>
@@ -51,7 +52,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
             <>
               <td className={td}>{formatValue(op.flow)}</td>
               <td className={td}>{formatValue(op.head)}</td>
-              <td className={td}>{formatValue(op.efficiency ?? interpolateAt(p.efficiency, op.flow))}</td>
+              <td className={td}>{formatKindValue("efficiency", op.efficiency ?? interpolateAt(p.efficiency, op.flow))}</td>
               <td className={td}>{formatValue(op.power ?? interpolateAt(p.power, op.flow))}</td>
               <td className={td}>{formatValue(op.npshr ?? interpolateAt(p.npshr, op.flow))}</td>
             </>
@@ -70,7 +71,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
           </th>
           <td className={td}>{formatValue(p.bep.flow)}</td>
           <td className={td}>{formatValue(p.bep.head)}</td>
-          <td className={td}>{formatValue(interpolateAt(p.efficiency, p.bep.flow))}</td>
+          <td className={td}>{formatKindValue("efficiency", interpolateAt(p.efficiency, p.bep.flow))}</td>
           <td className={td}>{formatValue(interpolateAt(p.power, p.bep.flow))}</td>
           <td className={td}>{formatValue(interpolateAt(p.npshr, p.bep.flow))}</td>
         </tr>,
@@ -124,7 +125,7 @@ export function ChartTables({ model }: { model: ChartModel }) {
               {model.pumps.map((p) =>
                 (pumpKinds(p).length ? pumpKinds(p) : (["head"] as const)).map((k) => (
                   <td key={`${p.id}-${k}`} className={td}>
-                    {formatValue(interpolateAt(pumpSeries(p, k), f))}
+                    {formatKindValue(k, interpolateAt(pumpSeries(p, k), f))}
                   </td>
                 )),
               )}

@@ -26,6 +26,7 @@ import { sampleProps } from "./sample.ts";
 import { linePump } from "./test-pumps.ts";
 import type { DutyChartProps } from "./types.ts";
 import { UNIT_SYSTEMS } from "../../engine/units.ts";
+import { fmtQ } from "../../lib/shared/units.ts";
 const SI_UNITS = UNIT_SYSTEMS.SI;
 const US_UNITS = UNIT_SYSTEMS.US;
 
@@ -112,12 +113,13 @@ describe("other pure helpers", () => {
     expect(s[0].y).toBeCloseTo(35, 12);
     expect(s[1].y).toBeCloseTo(25, 12);
   });
-  it("formatValue: fixed decimals by magnitude, locale-free (by construction)", () => {
-    expect(formatValue(360)).toBe("360.0");
-    expect(formatValue(1585.0323)).toBe("1585.0");
+  it("formatValue: the app's unit-aware number (units.ts fmtQ's fmtNum: decimals by magnitude), locale-free (by construction)", () => {
+    expect(formatValue(360)).toBe("360"); // as the candidates table's "360 m³/h" (it read "360.0")
+    expect(formatValue(360)).toBe(fmtQ(SI_UNITS, "flow", 0.1).split(" ")[0]); // 0.1 m³/s = 360 m³/h (SI definition of the hour)
+    expect(formatValue(1585.0323)).toBe("1585");
     expect(formatValue(4.2)).toBe("4.20");
     expect(formatValue(0.1234)).toBe("0.123");
-    expect(formatValue(0)).toBe("0");
+    expect(formatValue(0)).toBe("0.000"); // as fmtQ writes a zero reading (fmtNum, limits-apart.test.ts)
     expect(formatValue(null)).toBe("—");
     expect(formatValue(Number.NaN)).toBe("—");
   });
@@ -266,7 +268,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(render(base())).not.toContain('data-mark="por"');
   });
 
-  it("table view lists converted numbers: 0.1 m³/s → 360.0 m³/h (SI) and → 1585.0 gpm (NIST SP 811)", () => {
+  it("table view lists converted numbers: 0.1 m³/s → 360 m³/h (SI) and → 1585 gpm (NIST SP 811)", () => {
     const op = { flow: 0.1, head: 30, efficiency: 0.75, power: 40_000 };
     const props = base({ pumps: [linePump({ operating: op })], duty: { flow: 0.1, head: 30 } });
 
@@ -275,7 +277,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     expect(si).toContain("Table view");
     const siPoints = section(si, 'data-table="points"', "table");
     expect(siPoints).toContain("Flow (m³/h)");
-    expect(siPoints).toContain("360.0");
+    expect(siPoints).toContain(">360<");
     expect(siPoints).toContain("30.0"); // head in m
     expect(siPoints).toContain("75.0"); // %
     expect(siPoints).toContain("40.0"); // kW
@@ -283,8 +285,8 @@ describe("DutyChart markup (react-dom/server)", () => {
     const us = render({ ...props, unitSystem: US_UNITS });
     const usPoints = section(us, 'data-table="points"', "table");
     expect(usPoints).toContain("Flow (gpm)");
-    expect(usPoints).toContain("1585.0");
-    expect(usPoints).not.toContain("360.0");
+    expect(usPoints).toContain(">1585<");
+    expect(usPoints).not.toContain(">360<");
     expect(usPoints).toContain("98.4"); // 30 m / 0.3048 = 98.43 ft (NIST SP 811)
     expect(usPoints).toContain("53.6"); // 40 kW / 745.6999 W = 53.64 hp (NIST SP 811)
   });
@@ -329,7 +331,7 @@ describe("DutyChart markup (react-dom/server)", () => {
     const html = render(props);
     const readout = section(html, 'data-mark="readout"', "svg"); // readout is the last group in the svg
     expect(html).toContain('data-mark="crosshair"');
-    expect(readout).toContain("Flow 360.0 m³/h");
+    expect(readout).toContain("Flow 360 m³/h");
     expect(readout).toContain(">30.0<");
     expect(readout).toContain(">—<"); // short pump ends at 180 m³/h
     const us = render({ ...props, unitSystem: US_UNITS });

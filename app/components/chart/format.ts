@@ -1,30 +1,49 @@
 /**
- * Number formatting for the chart's labels, readout and tables: fixed decimals by magnitude,
- * locale-independent, so the server and the browser render the same text.
+ * Number text for the chart's labels, readout and tables: the app's unit-aware formatters' (app/lib/shared/units.ts), so a
+ * value on the chart reads as the same value in the candidates table, the report and the CSV's texts. The chart holds its
+ * values in the reader's display unit (display-units.ts: `fromSI` of the reader's unit, as `fmtQ` converts), so the number
+ * `fmtQ` prints is `fmtNum` of the display value: decimals by magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3; "360", "42.4",
+ * "4.20", "0.123"), a percentage to one decimal as `fmtPct`. Locale-independent (server and browser give the same text).
  */
 import { nearZeroWords } from "../../engine/quantityText.ts";
+import { fmtNum, fmtNumExact } from "../../lib/shared/units.ts";
+
+/** A panel kind's value (display unit: efficiency in %). */
+type Kind = "head" | "efficiency" | "power" | "npsh";
 
 /**
- * Formats a display value: 3 decimals below 1, 2 below 10, else 1 — e.g. 360 → "360.0",
- * 1585.03 → "1585.0", 4.2 → "4.20". Locale-independent (identical on server and client).
- * Exactly 0 → "0"; non-finite or null → "—".
+ * A display value's number as `fmtQ` prints it in the reader's unit ("360" m³/h, "1585" gpm, "4.20" m); "—" when missing.
+ * @param v the value in its display unit
  */
 export function formatValue(v: number | null | undefined): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  const a = Math.abs(v);
-  const digits = a < 1 ? 3 : a < 10 ? 2 : 1;
-  const s = v.toFixed(digits);
-  // Avoid "-0.0".
-  return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
+  return fmtNum(v);
 }
 
 /**
- * NPSHa as the chart's readout and table view give it (display units): where three decimals would show it as zero though
- * it is not, "< 0.001" above zero and "below 0" below (the engine's `nearZeroWords`, the one rule of every NPSHa text;
- * decisions "npshzero", "npshone"); otherwise as {@link formatValue}.
+ * A display value of a panel kind: an efficiency (in %) to one decimal as `fmtPct` ("75.0"), any other as {@link formatValue}.
+ * @param kind the panel kind the value belongs to
+ * @param v the value in its display unit (efficiency in %)
+ */
+export function formatKindValue(kind: Kind, v: number | null | undefined): string {
+  if (kind !== "efficiency") return formatValue(v);
+  return v == null || !Number.isFinite(v) ? "—" : v.toFixed(1);
+}
+
+/**
+ * NPSHa as the app's other NPSHa texts give it: where three decimals would show it as zero though it is not, "< 0.001"
+ * above zero and "below 0" below (the engine's `nearZeroWords`, the one rule of every NPSHa text; decisions "npshzero",
+ * "npshone"); otherwise read apart from zero (NPSHa at zero reads "0.000", as the candidates table writes it).
  * @param v NPSHa in the chart's NPSH unit (m or ft)
  */
 export function formatNpshaValue(v: number | null | undefined): string {
-  return (v != null && nearZeroWords(v)) || formatValue(v);
+  return (v != null && nearZeroWords(v)) || fmtNumExact(v, [0]);
+}
+
+/**
+ * The number of a unit-aware text for a cell whose column heading names the unit: "42.36 m³/h" → "42.36".
+ * @param text the text as `fmtQ` and its kin write it (number, space, unit label)
+ * @param label the unit's label
+ */
+export function numberOf(text: string, label: string): string {
+  return text.endsWith(` ${label}`) ? text.slice(0, -label.length - 1) : text;
 }

@@ -8,6 +8,8 @@ import { pumpColor } from "./colors.ts";
 import { bandBetween, cleanPoints, type BandPt } from "./curves.ts";
 import { displayUnits, flowToDisplay, seriesToDisplay, valueToDisplay, type DisplayUnits } from "./display-units.ts";
 import { powerHeading } from "./power-basis.ts";
+import { dutyFlowText } from "../candidate-figures.ts";
+import { fmtHead } from "../../lib/shared/units.ts";
 import { extent, niceDomain } from "./scales.ts";
 import type { DutyChartProps, Pt } from "./types.ts";
 
@@ -61,7 +63,8 @@ export interface ChartModel {
   pumps: DisplayPump[];
   system: { design: Pt[]; band: BandPt[]; low: Pt[]; high: Pt[] } | null;
   npsha: Pt[];
-  duty: { flow: number; head: number } | null;
+  /** The duty in display units, and its texts in the reader's units ("42.36 m³/h", apart from the flows delivered against it). */
+  duty: { flow: number; head: number; flowText: string; headText: string } | null;
   empty: boolean;
   compact: boolean;
 }
@@ -138,7 +141,13 @@ export function buildChartModel(props: ChartModelInput): ChartModel {
   const npsha = seriesToDisplay(props.npsha, "npsh", units);
   const duty =
     props.duty && Number.isFinite(props.duty.flow) && Number.isFinite(props.duty.head)
-      ? { flow: flowToDisplay(props.duty.flow, units), head: valueToDisplay("head", props.duty.head, units) }
+      ? {
+          flow: flowToDisplay(props.duty.flow, units),
+          head: valueToDisplay("head", props.duty.head, units),
+          // The report's rule (candidate-figures.ts): never read as a band edge's delivered flow ("42.36" beside 42.35 m³/h).
+          flowText: dutyFlowText(props.unitSystem, props.duty.flow, props.duty.apartFrom ?? []),
+          headText: fmtHead(props.unitSystem, props.duty.head),
+        }
       : null;
 
   // ----- x domain (display flow) -----

@@ -3,7 +3,7 @@
  * Pure; works in display units on a {@link ChartModel}.
  */
 import { interpolateAt } from "./curves.ts";
-import { formatNpshaValue, formatValue } from "./format.ts";
+import { formatKindValue, formatNpshaValue, formatValue } from "./format.ts";
 import { pumpSeries, type ChartModel, type PanelKind } from "./model.ts";
 import { powerHeading } from "./power-basis.ts";
 
@@ -100,7 +100,7 @@ export function readoutText(model: ChartModel, flow: number, hidden: ReadonlySet
     if (r.headText !== undefined) return `${r.label} ${r.headText} ${u.head.label}`;
     const vals = (Object.keys(r.values) as PanelKind[])
       .filter((k) => r.values[k] !== undefined)
-      .map((k) => `${nameOf[k]} ${(r.key === "npsha" ? formatNpshaValue : formatValue)(r.values[k])}${r.values[k] == null ? "" : " " + unitOf[k]}`);
+      .map((k) => `${nameOf[k]} ${r.key === "npsha" ? formatNpshaValue(r.values[k]) : formatKindValue(k, r.values[k])}${r.values[k] == null ? "" : " " + unitOf[k]}`);
     return `${r.label}: ${vals.join(", ")}`;
   });
   const note = readoutPowerNote(model, hidden);

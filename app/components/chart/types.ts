@@ -62,8 +62,11 @@ export type DutyChartProps = {
   pumps: PumpSeries[];
   /** NPSH available (m) vs flow. */
   npsha?: Pt[];
-  /** Required duty point (m³/s, m): drawn as an amber target cross. */
-  duty?: { flow: number; head: number } | null;
+  /**
+   * Required duty point (m³/s, m): drawn as an amber target cross. `apartFrom`: the flows delivered against it (the band
+   * edges' operating flows, m³/s), which its label is written apart from, as the report's duty row (`dutyFlowText`).
+   */
+  duty?: { flow: number; head: number; apartFrom?: readonly (number | null | undefined)[] } | null;
   /** x-axis extent, m³/s (else from the data). */
   flowMax?: number;
   /** Total chart height in viewBox units (the head panel takes what the others leave). */

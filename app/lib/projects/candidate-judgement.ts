@@ -305,7 +305,7 @@ export function savingOptions(ctx: Ctx, duty: { flow: number; head: number }, ca
   if (trl) {
     const d = ctx.base.impellerDiameter != null ? ctx.base.impellerDiameter * trl.r : null;
     const outside = catalogueReasons({ diameter: d, minDiameter: catalogue?.minDiameter, maxDiameter: catalogue?.maxDiameter, trimRatio: trl.r });
-    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (${settingToken("trim", trl.r, ctx.base)}, ${trl.how})` : ""}, approximate`, outside });
+    out.push({ means: "trim", power: times(at(trl.curve)), how: `impeller trimmed to ${fmtPct(trl.r)}${d ? ` (${settingToken("trim", trl.r, ctx.base, true)}, ${trl.how})` : ""}, approximate`, outside });
   }
   return out;
 }

@@ -3,7 +3,7 @@ import type { FrozenSelection } from "./selections.server";
 import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
 import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, pumpsRunningText, stepVerdict, stepWarnings } from "./energy";
-import { ALL_PUMPS_FIGURES, PER_PUMP_FIGURES, powerColumn, pumpsBasis, type PumpsBasis } from "./power-basis";
+import { csvFigureBasis, cycleFiguresBasis, powerColumn, pumpsBasis, STAGED_BASIS, type PumpsBasis } from "./power-basis";
 import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
 import { verdictStartNote } from "./verdict-start";
@@ -140,7 +140,7 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   const basis = pumpsBasis(f.adjustment);
   const staged = !!f.energy?.cycle?.steps.some((s) => s.pumpsRunning != null);
   if (basis) lines.push(row([staged
-    ? `# ${basis.arrangement}: pump curve and band are of the ${basis.together} (flows, heads and powers); the duty cycle of the duty pumps running at each step (pumps_running, staged by demand; standby pumps never run); figures name their basis`
+    ? `# ${basis.arrangement}: pump curve and band are of the ${basis.together} (flows, heads and powers); the duty cycle of ${STAGED_BASIS} (pumps_running, staged by demand; standby pumps never run); figures name their basis`
     : `# ${basis.arrangement}: pump curve, band and duty cycle are of the ${basis.together} (flows, heads and powers); figures name their basis`]));
   lines.push(row(["# NPSHa: system_curve npsha_m through the aged suction pipe (the least over its life); figures npsh_available at the design point (nominal level, new pipe); the npsh section at each point's own level and pipe; npsh_margin_ratio blank where NPSHa <= 0 (no ratio to NPSHr means anything there: NPSHa is beside it)"]));
   lines.push(row([SELECTION_CSV_UNITS_LINE]));
@@ -166,7 +166,8 @@ export function selectionCsv(id: number, title: string, f: FrozenSelection, note
   lines.push([]);
   lines.push(row(["section", "figure", "value", "unit", ...(basis ? ["basis"] : [])]));
   const fig = f.result.figures;
-  const add = (name: string, value: unknown, unit: string) => lines.push(row(["figures", name, value, unit, ...(basis ? [basisOf(basis, name)] : [])]));
+  const cycleWords = cycleFiguresBasis(basis, staged);
+  const add = (name: string, value: unknown, unit: string) => lines.push(row(["figures", name, value, unit, ...(basis ? [csvFigureBasis(basis, cycleWords, name)] : [])]));
   add("operating_flow", f.result.operating?.flow, "m3/s");
   add("operating_head", f.result.operating?.head, "m");
   const verdict = f.result.verdict;
@@ -308,9 +309,6 @@ function minFlowFigures(f: FrozenSelection, add: (name: string, value: unknown, 
   add("duty_flow_per_running_pump", c?.dutyPerPump ?? null, "m3/s");
   add("min_flow_rule", c ? MIN_FLOW_RULE : null, "");
 }
-
-/** A figure's basis for pumps in parallel or series: per pump, the duty pumps together, or "" where neither applies. */
-const basisOf = (b: PumpsBasis, name: string) => (PER_PUMP_FIGURES.has(name) ? "per pump" : ALL_PUMPS_FIGURES.has(name) ? b.together : "");
 
 const currencyOf = (f: FrozenSelection) => selectionCurrency(f) || "currency";
 

@@ -99,15 +99,17 @@ describe("the booster cases of the edge hunt: the verdict at the shown setting i
     expect(e.verdict!.reasons.join(" ")).toMatch(/1645\.0 rpm is 100\.0\d+ % of the rated 1644\.5 rpm, above the allowed 100 %/);
   });
 
-  test("the trimmed diameter is set in whole mm and shown in the reader's unit only", () => {
+  test("the trimmed diameter is set in whole mm, shown in the reader's unit, with the whole mm beside inches where its rounding is stated", () => {
     const s = setOf("TFS Slipway 125", 195);
     const e = evaluate(booster(40, 38), s, adjust("trim"));
     expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS, true)).toBe(" (trimmed to Ø182 mm (solved Ø181.4 mm, rounded up to keep the duty))");
     // Chart labels and legends (the default) stay short: the setting only (a report prints on two pages).
     expect(adjustmentText({ adjustment: adjust("trim"), result: e }, SI_UNITS)).toBe(" (trimmed to Ø182 mm)");
-    // 182 mm / 25.4 = 7.165 in; 181.386 mm = 7.141 in, kept apart from the steps beside it (181 mm = 7.126 in): no SI word for a US reader.
-    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS, true)).toBe(" (trimmed to Ø7.17 in (solved Ø7.14 in, rounded up to keep the duty))");
-    expect(renderUnits(e.ratioNote!, US_UNITS)).toMatch(/solved impeller Ø7\.14 in, set and judged at Ø7\.17 in: rounded up to the next whole mm/);
+    // 182 mm / 25.4 = 7.165 in; 181.386 mm = 7.141 in, kept apart from the steps beside it (181 mm = 7.126 in). The site sets
+    // whole mm (setting-step.ts), so beside the rounding the whole mm it names: "[182 mm]" (decision "surfaces2").
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS, true)).toBe(" (trimmed to Ø7.17 in [182 mm] (solved Ø7.14 in [181.4 mm], rounded up to keep the duty))");
+    expect(adjustmentText({ adjustment: adjust("trim"), result: e }, US_UNITS)).toBe(" (trimmed to Ø7.17 in)"); // the chart's label: no rounding named, the reader's unit alone
+    expect(renderUnits(e.ratioNote!, US_UNITS)).toMatch(/solved impeller Ø7\.14 in \[181\.4 mm\], set and judged at Ø7\.17 in \[182 mm\]: rounded up to the next whole mm/);
   });
 
   test("a ratio typed in stays as typed: nothing solved, nothing rounded, the rpm shown to a tenth when off the step", () => {

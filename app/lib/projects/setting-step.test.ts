@@ -1,7 +1,8 @@
 // The setting a site makes and the page shows (setting-step.ts), pure. Check values: whole rpm and whole mm (common
 // practice for a drive's set point and a turned-down impeller), worked by hand from the numbers beside them.
 import { describe, expect, it } from "vitest";
-import { roundingNote, roundUpSetting, settingText } from "./setting-step";
+import { roundingNote, roundUpSetting, settingText, settingToken } from "./setting-step";
+import { renderUnits, SI_UNITS, US_UNITS } from "~/lib/shared/units";
 
 const PUMP = { speed: 2900, impellerDiameter: 0.295 };
 
@@ -47,5 +48,25 @@ describe("a solved ratio rounded up to what a site sets", () => {
     // Half-way values round up as written, not down by float noise: 0.85 × 295 = 250.75 mm (250.74999… in binary).
     expect(0.85 * 0.295 * 1000).toBeLessThan(250.75);
     expect(settingText("trim", 0.85, PUMP)).toBe("Ø250.8 mm");
+  });
+});
+
+describe("the whole mm a site sets, beside inches where the rounding to it is said (decision \"surfaces2\")", () => {
+  // 182 mm / 25.4 = 7.165 in, 181.386 mm = 7.141 in (1 in = 25.4 mm exactly, NIST SP 811).
+  const r = roundUpSetting("trim", 0.181386 / 0.295, PUMP);
+  it("US: the note names the whole mm it rounded to, and the solved value's mm, in brackets after the inches", () => {
+    expect(renderUnits(roundingNote("trim", r, PUMP), US_UNITS)).toBe("solved impeller Ø7.14 in [181.4 mm], set and judged at Ø7.17 in [182 mm]: rounded up to the next whole mm (what a site sets) so the duty is kept");
+  });
+  it("SI (and the CSV, JSON): mm alone, as before", () => {
+    expect(renderUnits(roundingNote("trim", r, PUMP), SI_UNITS)).toBe("solved impeller Ø181.4 mm, set and judged at Ø182 mm: rounded up to the next whole mm (what a site sets) so the duty is kept");
+  });
+  it("a diameter unit picked on its own decides: inches over SI get the bracket, mm over US do not", () => {
+    const token = settingToken("trim", r.ratio, PUMP, true);
+    expect(renderUnits(token, { ...SI_UNITS, diameter: "in" })).toBe("Ø7.17 in [182 mm]");
+    expect(renderUnits(token, { ...US_UNITS, diameter: "mm" })).toBe("Ø182 mm");
+    expect(renderUnits(settingToken("trim", r.ratio, PUMP), US_UNITS)).toBe("Ø7.17 in"); // a label naming no rounding: the reader's unit alone
+  });
+  it("a token naming a unit its quantity does not have stays as written (noticed, never guessed)", () => {
+    expect(renderUnits("Ø⟦diameter|0.182|also:rpm:0.181,0.183⟧", US_UNITS)).toBe("Ø⟦diameter|0.182|also:rpm:0.181,0.183⟧");
   });
 });

@@ -5,8 +5,14 @@
 // this curve); the verdict and every figure are then worked out at the rounded setting (candidate-solve.ts), so the
 // setting shown is the setting judged. A value off its step (a ratio typed as a percentage, a selection frozen before
 // this rule) is shown with one more decimal, never rounded to a step it is not on. Pure: hydraulics and the pages.
+// In US units: the trim is still set in whole mm (one rule for every reader: a selection's setting and verdict never
+// change with the units it is read in), so every text that says it was rounded to "the next whole mm" writes the
+// diameter in the reader's unit with the whole mm beside it — "Ø6.65 in [169 mm], the next whole mm up" — through one
+// token (`qtAlsoIn`) that every surface renders alike: the candidates table's Adjustment and Notes, the report, the
+// oversized verdict's savings, CSV and JSON (SI: "Ø169 mm" alone) and the API (in the caller's units). A label that
+// names no rounding (the chart's, the search row's) reads the reader's unit alone.
 
-import { qtExact } from "~/engine/quantityText";
+import { qtAlsoIn, qtExact } from "~/engine/quantityText";
 
 type Method = "speed" | "trim";
 /** The published curve's speed (rpm) and impeller diameter (m), null when it names none. */
@@ -74,14 +80,15 @@ export function settingText(method: Method, ratio: number, pub: Published): stri
  * @param method speed or trim
  * @param ratio the ratio (dimensionless)
  * @param pub the published curve's speed (rpm) and impeller (m)
+ * @param stepToo for a text that names the whole-mm step: the whole mm beside a diameter read in another unit ("Ø7.36 in [187 mm]")
  */
-export function settingToken(method: Method, ratio: number, pub: Published): string {
+export function settingToken(method: Method, ratio: number, pub: Published, stepToo = false): string {
   const { base, step, kind } = stepOf(method, pub);
   if (kind !== "mm") return settingText(method, ratio, pub);
   const value = Number((ratio * base).toPrecision(12));
   const below = Math.floor(value / step + ON_STEP) * step;
   const neighbours = onStep(value, step) ? [value - step, value + step] : [below, below + step];
-  return `Ø${qtExact("diameter", value, neighbours)}`;
+  return `Ø${stepToo ? qtAlsoIn("diameter", value, "mm", neighbours) : qtExact("diameter", value, neighbours)}`;
 }
 
 const STEP_WORDS = { rpm: "the next whole rpm", mm: "the next whole mm", "%": "the next 0.1 %" } as const;
@@ -92,7 +99,7 @@ const STEP_WORDS = { rpm: "the next whole rpm", mm: "the next whole mm", "%": "t
  */
 export function roundingNote(method: Method, r: RoundedSetting, pub: Published): string {
   const { kind } = stepOf(method, pub);
-  const solved = settingToken(method, r.solved, pub), set = settingToken(method, r.ratio, pub);
+  const solved = settingToken(method, r.solved, pub, true), set = settingToken(method, r.ratio, pub, true);
   const what = method === "speed" ? (kind === "rpm" ? "speed" : "speed ratio") : kind === "mm" ? "impeller" : "trim ratio";
   if (r.capped) return `solved ${what} ${solved}; rounding up to ${STEP_WORDS[kind]} would pass the published curve's ${set}, so it is set and judged at ${set}`;
   if (r.ratio === r.solved) return `solved ${what} ${solved}, on a step already: set and judged at ${set}`;

@@ -86,6 +86,16 @@ export const fmtQExact = fmtQuantityExact;
 /** A reading judged by its side of zero (NPSHa): "< 0.001 m" above zero and below 0.001 in the unit shown, else as fmtQExact read apart from zero. */
 export const fmtQAboveZero = fmtQuantityAboveZero;
 
+/**
+ * A value whose zero is a reading of its own (a pressure difference between two surfaces: none at all, or some): exactly
+ * zero as "0 kPa", never "0.000 kPa" as if rounded; any other value with the decimals it needs not to read as zero
+ * ("0.0000001 kPa", no exponent down to 20 decimals), else as {@link fmtQ}.
+ * @param u the reader's units
+ * @param q physical quantity (unitless id)
+ * @param si the value in SI
+ */
+export const fmtQZero = (u: UnitChoice, q: Quantity, si: number | null | undefined): string => (si === 0 ? `0 ${labelOf(u, q)}` : fmtQExact(u, q, si, [0]));
+
 export const fmtFlow = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "flow", si);
 export const fmtHead = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "head", si);
 export const fmtPower = (u: UnitChoice, si: number | null | undefined) => fmtQ(u, "power", si);
