@@ -321,13 +321,42 @@ export function shaftPowerAt(curve: PumpCurve | PumpCurveInput, flow: number, de
 }
 
 /**
- * NPSH required at a flow, m; null where the NPSHr column does not cover the flow.
+ * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁹). NPSHr is read off the published curve
+ * between its first and last published flow, never beyond (decision "npshone"); but a flow that reaches an end through
+ * arithmetic — a band corner solved by a root finder, one pump's share of a total, a flow scaled by a speed ratio and back
+ * — lands a rounding error either side of it (43.2000000001 m³/h at a curve ending at 43.2 m³/h), and a text showing at
+ * most 9 significant digits then read "the NPSHr curve ends at 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h".
+ * Rule: a flow within 1 part in 10⁹ of the NPSHr column's first or last published flow is at that flow and reads its
+ * NPSHr; further out it has none. The same allowance the app takes elsewhere for a flow at a limit (the maker's minimum
+ * flow, app/lib/projects/verdict-min-flow.ts), and the same in the search's index (searchIndex.ts `evalNpshrPacked`), so
+ * the search and the workbench read NPSHr at the same flows.
+ */
+export const NPSHR_END_ROUNDING = 1e-9;
+
+/**
+ * The flow NPSHr is read at: `flow` itself, or the NPSHr column's first or last published flow where `flow` lies within
+ * {@link NPSHR_END_ROUNDING} of it outside the column (m³/s throughout; any unit of flow alike).
+ * @param first the column's first published flow
+ * @param last the column's last published flow
+ * @param flow the flow asked about
+ */
+export function npshrFlow(first: number, last: number, flow: number): number {
+  if (flow > last && flow <= last * (1 + NPSHR_END_ROUNDING)) return last;
+  if (flow < first && flow >= first * (1 - NPSHR_END_ROUNDING)) return first;
+  return flow;
+}
+
+/**
+ * NPSH required at a flow, m; null where the NPSHr column does not cover the flow (a flow a rounding error outside its
+ * first or last published flow reads the NPSHr there: {@link NPSHR_END_ROUNDING}).
  * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
  * @param flow flow, m³/s
  */
 export function npshrAt(curve: PumpCurve | PumpCurveInput, flow: number): number | null {
   const c = asCurve(curve);
-  return c.npshr ? evalCubic(c.npshr, requireFinite("flow", flow)) : null;
+  const n = c.npshr;
+  if (!n) return null;
+  return evalCubic(n, npshrFlow(n.x[0], n.x[n.x.length - 1], requireFinite("flow", flow)));
 }
 
 /**
