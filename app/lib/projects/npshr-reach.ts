@@ -60,17 +60,22 @@ export function whyNoNpshr(pub: NpshrPublished | null | undefined, p: At): strin
  * "the NPSHr curve ends at ⟦flow|0.008⟧, and the pump runs past it at ⟦flow|0.0101⟧ (design point), …";
  * "the NPSHr curve starts at …, and the pump runs below it at …";
  * "the curve publishes NPSHr at one flow only (⟦head|3.2⟧ at ⟦flow|0.0417⟧): one point is no curve to read it at …";
- * "the curve publishes no NPSHr at …" (none at all, or a selection frozen before the reach was kept).
+ * "the curve publishes no NPSHr at …" (none at all, or a selection frozen before the reach was kept); pumps in parallel
+ * "the curve publishes no NPSHr, and each pump runs at ⟦flow|0.00958⟧ (design point), …" (one pump's flow, not the total).
  * @param pub what the curve publishes (null: none; undefined: not known)
  * @param points the points with an operating point and no NPSHr (flows m³/s)
  * @param named whether each flow is followed by where it is ("(design point)"); the table's row at the operating point leaves it out
  */
 export function npshrGapClauses(pub: NpshrPublished | null | undefined, points: readonly At[], named = true): string[] {
   if (!points.length) return [];
-  const several = pub != null && pub.pumps > 1;
+  // Several pumps run together: the count kept with what the curve publishes; where it publishes none (no count kept),
+  // pumps in parallel are told by their points, whose one pump's flow is not the total (each pump takes its share).
+  const several = pub != null ? pub.pumps > 1 : points.some((p) => p.pumpFlow != null && p.flow != null && p.pumpFlow !== p.flow);
   const runs = several ? "each pump runs" : "the pump runs";
   const list = (ps: readonly At[], against: number[]) => ps.map((p) => `${qtExact("flow", pumpFlowOf(p), against)}${named ? ` (${p.at})` : ""}`).join(", ");
-  if (pub == null) return [`the curve publishes no NPSHr at ${points.map((p) => `${qt("flow", p.flow!)}${named ? ` (${p.at})` : ""}`).join(", ")}`];
+  // No NPSHr where the pumps run: with several, each pump's flow, as the words past an end give it, never the total.
+  const none = (ps: readonly At[]) => (several ? `the curve publishes no NPSHr, and each pump runs at ${list(ps, [])}` : `the curve publishes no NPSHr at ${list(ps, [])}`);
+  if (pub == null) return [several ? none(points) : `the curve publishes no NPSHr at ${points.map((p) => `${qt("flow", p.flow!)}${named ? ` (${p.at})` : ""}`).join(", ")}`];
   if (pub.points === 1)
     return [`the curve publishes NPSHr at one flow only (${qt("head", pub.single!)} at ${qtLimit("flow", pub.from, points.map(pumpFlowOf))}${several ? " for one pump" : ""}): one point is no curve to read it at ${list(points, [pub.from])}`];
   const curve = several ? "one pump's NPSHr curve" : "the NPSHr curve";
@@ -80,6 +85,6 @@ export function npshrGapClauses(pub: NpshrPublished | null | undefined, points: 
   const out: string[] = [];
   if (past.length) out.push(`${curve} ends at ${qtLimit("flow", pub.to, past.map(pumpFlowOf))}, and ${runs} past it at ${list(past, [pub.to])}`);
   if (before.length) out.push(`${curve} starts at ${qtLimit("flow", pub.from, before.map(pumpFlowOf))}, and ${runs} below it at ${list(before, [pub.from])}`);
-  if (inside.length) out.push(`the curve publishes no NPSHr at ${list(inside, [])}`);
+  if (inside.length) out.push(none(inside));
   return out;
 }
