@@ -35,7 +35,7 @@ export {
 } from "./registry.ts";
 export { monotoneCubic, evalCubic, type MonotoneCubic } from "./interp.ts";
 export {
-  createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, npshrFlow, NPSHR_END_ROUNDING, flowsAtHead, sampleCurve, POR_FRACTION,
+  createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, NPSHR_END_ROUNDING, flowsAtHead, sampleCurve, POR_FRACTION,
   type PumpPoint, type PumpCurveInput, type PumpCurve, type BestEfficiencyPoint, type SampledCurve,
 } from "./pumpCurve.ts";
 export { prepareSearchIndex, joinSearchIndexes, type CurveSet, type SearchIndex } from "./searchIndex.ts";

@@ -335,10 +335,10 @@ export const NPSHR_END_ROUNDING = 1e-9;
 
 /**
  * The flow NPSHr is read at: `flow` itself, or the NPSHr column's first or last published flow where `flow` lies within
- * {@link NPSHR_END_ROUNDING} of it outside the column (m³/s throughout; any unit of flow alike).
- * @param first the column's first published flow
- * @param last the column's last published flow
- * @param flow the flow asked about
+ * {@link NPSHR_END_ROUNDING} of it outside the column. For the engine's own lookups (`npshrAt`, the search's index).
+ * @param first the column's first published flow, m³/s (any unit of flow, the same for all three)
+ * @param last the column's last published flow, m³/s (same unit)
+ * @param flow the flow asked about, m³/s (same unit)
  */
 export function npshrFlow(first: number, last: number, flow: number): number {
   if (flow > last && flow <= last * (1 + NPSHR_END_ROUNDING)) return last;

@@ -66,8 +66,10 @@ describe("a band corner a rounding error past the NPSHr curve's last flow (43.2 
     expect(note(far)).toMatch(/^but NPSH not checked: the NPSHr curve ends at 43\.2 m³\/h, and the pump runs past it at 43\.20004\d* m³\/h \(least lift, new pipe\); where judged, /);
   });
   it("the search reads the same NPSHr at the corner's flow as the workbench: 2.5 m at end × (1 + 1e-12), none at end × (1 + 1e-6)", () => {
-    const curve = createPumpCurve(pump(upTo(END)));
-    const index = prepareSearchIndex([{ id: "1", curve: pump(upTo(END)) }]);
+    // The same points as the engine takes them (no blank columns), as the search's index is built from a curve set.
+    const points = pump(upTo(END)).points.map(({ power: _, npshr, ...p }) => ({ ...p, ...(npshr != null ? { npshr } : {}) }));
+    const curve = createPumpCurve({ points });
+    const index = prepareSearchIndex([{ id: "1", curve: { points } }]);
     for (const [r, want] of [[near, 2.5], [far, null]] as const) {
       const q = corner(r, "least lift, new pipe").pumpFlow!;
       const found = searchDuty(index, { flow: q, head: headAt(curve, q)! }, { npshAvailable: 10, methods: ["direct"] }).candidates[0];
