@@ -14,6 +14,7 @@
 // (searchIndex.ts `PackBuilder.end`) alike: the search neither leaves such a pump out nor passes it on NPSH at the
 // duty (its NPSHr there is null), and its row and the candidates table both say "NPSH not checked: the curve publishes
 // NPSHr at one flow only (3.20 m at 150 m³/h): one point is no curve to read it at …" with the flows, from one judgement.
+import { efficiencyAt, headAt, npshrAt, NPSHR_END_ROUNDING, sampleCurve, shaftPowerAt, type PumpCurve } from "~/engine";
 import { qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 /**
@@ -86,5 +87,33 @@ export function npshrGapClauses(pub: NpshrPublished | null | undefined, points: 
   if (past.length) out.push(`${curve} ends at ${qtLimit("flow", pub.to, past.map(pumpFlowOf))}, and ${runs} past it at ${list(past, [pub.to])}`);
   if (before.length) out.push(`${curve} starts at ${qtLimit("flow", pub.from, before.map(pumpFlowOf))}, and ${runs} below it at ${list(before, [pub.from])}`);
   if (inside.length) out.push(none(inside));
+  return out;
+}
+
+/** One sampled point of a curve as the result keeps it (SI: m³/s, m, fraction, W, m; null where the column has none). */
+export type SampledPoint = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null };
+
+/**
+ * The curve sampled at `count` evenly spaced flows (engine `sampleCurve`) and at its NPSHr column's first and last published
+ * flows where they fall between two samples (m³/s; SI throughout). The result's sampled curve is what the duty cycle
+ * rebuilds its curves from (cycle-curve.ts), and its NPSHr stopped at the last sample before the published end — up to a
+ * fortieth of the curve's flows short: a staged step one pump runs at 29.5 m³/h, on an NPSHr curve published to 30.0 m³/h,
+ * was "not judged". With both ends kept, the rebuilt curve's NPSHr reaches where the published one does (to a rounding
+ * error, read by the engine's allowance, pumpCurve.ts `NPSHR_END_ROUNDING`). An end within that allowance of a sample is
+ * the sample.
+ * @param curve the curve as run (SI)
+ * @param count evenly spaced samples (count)
+ * @param density the liquid's density for the power column, kg/m³
+ */
+export function samplesWithNpshrEnds(curve: PumpCurve, count: number, density: number): SampledPoint[] {
+  const s = sampleCurve(curve, count, density);
+  const out: SampledPoint[] = s.flows.map((q, i) => ({ flow: q, head: s.head[i], efficiency: s.efficiency[i] ?? null, power: s.power[i] ?? null, npshr: s.npshr[i] ?? null }));
+  const n = curve.npshr;
+  if (!n) return out;
+  for (const end of [n.x[0], n.x[n.x.length - 1]]) {
+    if (!(end > curve.flowMin && end < curve.flowMax) || out.some((p) => Math.abs(p.flow - end) <= NPSHR_END_ROUNDING * end)) continue;
+    const at = out.findIndex((p) => p.flow > end);
+    out.splice(at, 0, { flow: end, head: headAt(curve, end)!, efficiency: efficiencyAt(curve, end), power: shaftPowerAt(curve, end, density), npshr: npshrAt(curve, end) });
+  }
   return out;
 }
