@@ -1,6 +1,6 @@
-// A flow a rounding error outside the NPSHr curve's first or last published flow reads the NPSHr there (pumpCurve.ts
-// `NPSHR_END_ROUNDING`: 1 part in 10⁹), in the workbench's curve (`npshrAt`) and the search's index (`evalNpshrPacked`: the
-// search from raw and prepared sets) alike, so the search leaves a pump out, or keeps it, at the same flows the workbench judges.
+// A flow a rounding error outside the NPSHr curve's first or last published flow reads the NPSHr there (npshrEnds.ts
+// `NPSHR_END_ROUNDING`: 1 part in 10⁹), in the workbench's curve (`npshrAt`) and the search's index (`evalNpshrPacked`:
+// the search from raw and prepared sets) alike, so the search leaves a pump out, or keeps it, at the same flows the workbench judges.
 // Before, both read none a hair past an end: the search kept a pump whose NPSHa is below NPSHr at such a duty (NPSHr
 // null), and the workbench printed "the NPSHr curve ends at 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h".
 // 1 part in 10⁶ out is a flow apart: no NPSHr, on both sides. Check values: the rules "NPSHr read off the published

@@ -6,7 +6,8 @@
  */
 import { EngineInputError, requirePositive } from "./errors.ts";
 import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
-import { checkPumpPoints, npshrFlow, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { npshrFlow } from "./npshrEnds.ts";
 import { G0 } from "./units.ts";
 
 /** A curve set to search: one pump model at one speed and impeller diameter. */
@@ -123,7 +124,7 @@ export function evalPacked(p: Packed, i: number, t: number): number | null {
 /**
  * NPSHr of set i at a flow, m; null outside its NPSHr column or without one. A flow within 1 part in 10⁹ of the column's
  * first or last published flow reads the NPSHr there: the workbench's rounding allowance (pumpCurve.ts
- * `NPSHR_END_ROUNDING`, `npshrAt`), so the search leaves out, or keeps, a pump at the same flows the workbench judges.
+ * npshrEnds.ts `NPSHR_END_ROUNDING`, pumpCurve.ts `npshrAt`), so the search leaves out, or keeps, a pump at the same flows the workbench judges.
  * @param p the packed NPSHr column (SI: knots m³/s, values m)
  * @param i set position in the index (count)
  * @param t flow, m³/s

@@ -87,7 +87,7 @@ describe("the NPSHr curve ends before the duty flow: 'NPSH not checked' on the v
 
 describe("the flip: the least-lift corner's flow crossing the NPSHr curve's last published flow (0.012 m³/s) and its rounding allowance", () => {
   const END = 0.012;
-  // A flow within 1 part in 10⁹ of the last published flow reads the NPSHr there (engine pumpCurve.ts NPSHR_END_ROUNDING):
+  // A flow within 1 part in 10⁹ of the last published flow reads the NPSHr there (engine npshrEnds.ts NPSHR_END_ROUNDING):
   // the flip lies at END × (1 + 1e-9), the allowance's edge (npshr-end-rounding.test.ts: 1e-12 past judged, 1e-6 not).
   const EDGE = END * (1 + NPSHR_END_ROUNDING);
   const at = (staticLow: number) => evaluate({ ...defaultSystemInput(), staticLow }, END);

@@ -1,5 +1,5 @@
 // A band corner a rounding error past the NPSHr curve's last published flow (or before its first) is judged there, with
-// the NPSHr at that end (engine pumpCurve.ts `NPSHR_END_ROUNDING`: a flow within 1 part in 10⁹ of an end is at it).
+// the NPSHr at that end (engine npshrEnds.ts `NPSHR_END_ROUNDING`: a flow within 1 part in 10⁹ of an end is at it).
 // Before, such a corner was not judged and the verdict's line read "but NPSH not checked: the NPSHr curve ends at
 // 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h (least lift, new pipe)", two flows a text cannot tell apart.
 // 1 part in 10⁶ past the end stays unjudged, its flow read apart (43.20004 m³/h). The corner is placed by bisecting the

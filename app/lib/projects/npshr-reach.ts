@@ -99,7 +99,7 @@ export type SampledPoint = { flow: number; head: number; efficiency: number | nu
  * rebuilds its curves from (cycle-curve.ts), and its NPSHr stopped at the last sample before the published end — up to a
  * fortieth of the curve's flows short: a staged step one pump runs at 29.5 m³/h, on an NPSHr curve published to 30.0 m³/h,
  * was "not judged". With both ends kept, the rebuilt curve's NPSHr reaches where the published one does (to a rounding
- * error, read by the engine's allowance, pumpCurve.ts `NPSHR_END_ROUNDING`). An end within that allowance of a sample is
+ * error, read by the engine's allowance, npshrEnds.ts `NPSHR_END_ROUNDING`). An end within that allowance of a sample is
  * the sample.
  * @param curve the curve as run (SI)
  * @param count evenly spaced samples (count)
