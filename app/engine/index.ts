@@ -38,6 +38,7 @@ export {
   createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, flowsAtHead, sampleCurve, POR_FRACTION,
   type PumpPoint, type PumpCurveInput, type PumpCurve, type BestEfficiencyPoint, type SampledCurve,
 } from "./pumpCurve.ts";
+export { NPSHR_END_ROUNDING } from "./npshrEnds.ts";
 export { prepareSearchIndex, joinSearchIndexes, type CurveSet, type SearchIndex } from "./searchIndex.ts";
 export { searchDuty, type SearchOptions, type Candidate, type SearchResult } from "./search.ts";
 export { explainRanks } from "./searchExplain.ts";

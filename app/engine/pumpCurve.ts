@@ -19,6 +19,7 @@ import { evalCubic, monotoneCubic, type MonotoneCubic } from "./interp.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { qt } from "./quantityText.ts";
+import { npshrFlow } from "./npshrEnds.ts";
 
 /** One point of a published curve (SI). */
 export interface PumpPoint {
@@ -321,13 +322,16 @@ export function shaftPowerAt(curve: PumpCurve | PumpCurveInput, flow: number, de
 }
 
 /**
- * NPSH required at a flow, m; null where the NPSHr column does not cover the flow.
+ * NPSH required at a flow, m; null where the NPSHr column does not cover the flow (a flow a rounding error outside its
+ * first or last published flow reads the NPSHr there: {@link NPSHR_END_ROUNDING}).
  * @param curve the curve (prepared or raw; SI: flow m³/s, head m)
  * @param flow flow, m³/s
  */
 export function npshrAt(curve: PumpCurve | PumpCurveInput, flow: number): number | null {
   const c = asCurve(curve);
-  return c.npshr ? evalCubic(c.npshr, requireFinite("flow", flow)) : null;
+  const n = c.npshr;
+  if (!n) return null;
+  return evalCubic(n, npshrFlow(n.x[0], n.x[n.x.length - 1], requireFinite("flow", flow)));
 }
 
 /**

@@ -18,7 +18,7 @@ import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegat
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
-import { evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
+import { evalNpshrPacked, evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
 import { explainRanks } from "./searchExplain.ts";
 
 export type { CurveSet, SearchIndex } from "./searchIndex.ts";
@@ -162,7 +162,7 @@ export function searchDuty(
     const bepQ = idx.bepFlow[e] < 0 ? null : idx.bepFlow[e] * Math.pow(ratio, kk);
     const bepRatio = bepQ ? qd / bepQ : null;
     let npshr: number | null = null;
-    const n0 = evalPacked(idx.npshr, e, qOrig);
+    const n0 = evalNpshrPacked(idx.npshr, e, qOrig); // a rounding error past its end reads the end (npshrEnds.ts NPSHR_END_ROUNDING)
     if (n0 !== null) npshr = method === 2 ? n0 * ratio * ratio : n0;
     // An NPSHr so small that NPSHa / NPSHr is no finite number (5e-324 m) is no requirement to judge against: no margin, as
     // without NPSHr (it threw the whole search); at NPSHa 0 the ratio is 0, and the pump is left out as every other.

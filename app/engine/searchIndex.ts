@@ -7,6 +7,7 @@
 import { EngineInputError, requirePositive } from "./errors.ts";
 import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
 import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { npshrFlow } from "./npshrEnds.ts";
 import { G0 } from "./units.ts";
 
 /** A curve set to search: one pump model at one speed and impeller diameter. */
@@ -118,6 +119,21 @@ export function evalPacked(p: Packed, i: number, t: number): number | null {
   if (!(t >= x[lo] && t <= x[hi])) return null;
   if (hi === lo) return p.y[lo];
   return hermiteIn(x, p.y, p.m, lo, hi, t);
+}
+
+/**
+ * NPSHr of set i at a flow, m; null outside its NPSHr column or without one. A flow within 1 part in 10⁹ of the column's
+ * first or last published flow reads the NPSHr there: the workbench's rounding allowance (pumpCurve.ts
+ * npshrEnds.ts `NPSHR_END_ROUNDING`, pumpCurve.ts `npshrAt`), so the search leaves out, or keeps, a pump at the same flows the workbench judges.
+ * @param p the packed NPSHr column (SI: knots m³/s, values m)
+ * @param i set position in the index (count)
+ * @param t flow, m³/s
+ */
+export function evalNpshrPacked(p: Packed, i: number, t: number): number | null {
+  const lo = p.off[i];
+  const hi = p.off[i + 1] - 1;
+  if (hi < lo) return null;
+  return evalPacked(p, i, npshrFlow(p.x[lo], p.x[hi], t));
 }
 
 /** Efficiency cubic from the power column when the curve gives no efficiency (η = ρ·g₀·Q·H/P at its points). */

@@ -8,6 +8,7 @@
 // none where they name none), moved with the curve: flow × pumps in parallel, head × pumps in series, and by the affinity
 // laws (Q ∝ N, H ∝ N²) with the speed (common practice, as engine stepPor.ts moves it to a step's speed).
 import { createPumpCurve, efficiencyAt, POR_FRACTION, scaleBySpeed, type PumpCurve } from "~/engine";
+import type { NpshrPublished } from "./npshr-reach";
 
 type CurvePoint = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null };
 
@@ -44,6 +45,24 @@ export function withBep(curve: PumpCurve, bep: { flow: number; head: number } | 
  * @param density the liquid's density, kg/m³ (a power column read as efficiency)
  * @param undoSpeed take a speed setting back to the curve's speed (a drive's cycle)
  */
+/** The speed the cycle's curves are at, as a fraction of the candidate's as set: 1 / its speed ratio where a drive's cycle undoes a speed setting, else 1. */
+const cycleSpeed = (c: CycleCurveSource, undoSpeed: boolean): number =>
+  undoSpeed && c.adjustment.method === "speed" && c.result.ratio > 0 && c.result.ratio !== 1 ? 1 / c.result.ratio : 1;
+
+/**
+ * The NPSHr one pump's curve publishes (the candidate's judgement's `npshrPublished`, as set), at the speed of the cycle's
+ * curves: flows × speed, its one NPSHr × speed² (affinity laws, as engine scaleBySpeed moves the curve). Null: none
+ * published; undefined: not kept (a result from before it was).
+ * @param c the evaluated candidate
+ * @param undoSpeed whether the cycle's curves undo a speed setting (as `cycleCurves`)
+ */
+export function npshrOnCycle(c: CycleCurveSource & { result: { npsh?: { npshrPublished?: NpshrPublished | null } | null } }, undoSpeed: boolean): NpshrPublished | null | undefined {
+  const pub = c.result.npsh?.npshrPublished;
+  if (pub == null) return pub;
+  const s = cycleSpeed(c, undoSpeed);
+  return { ...pub, from: pub.from * s, to: pub.to * s, single: pub.single == null ? null : pub.single * s * s };
+}
+
 export function cycleCurves(c: CycleCurveSource, density: number, undoSpeed: boolean): { curve: PumpCurve; one: PumpCurve | null } {
   const r = c.result;
   let curve = createPumpCurve({
@@ -57,7 +76,7 @@ export function cycleCurves(c: CycleCurveSource, density: number, undoSpeed: boo
     powerDensity: density,
     riseTolerance: 1,
   });
-  const speed = undoSpeed && c.adjustment.method === "speed" && r.ratio > 0 && r.ratio !== 1 ? 1 / r.ratio : 1;
+  const speed = cycleSpeed(c, undoSpeed);
   if (speed !== 1) curve = scaleBySpeed(curve, speed).curve;
   curve = withBep(curve, bepOn(c, { together: true, speed }));
   const pumps = c.adjustment.arrangement === "parallel" ? c.adjustment.dutyPumps : 1;

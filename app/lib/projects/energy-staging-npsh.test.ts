@@ -6,6 +6,7 @@
 // found by bisecting the step's flow. The curve and its NPSHr column are invented (the energy fixture's pump).
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, npshAvailable, npshrAt, prepareSystem, suctionLoss } from "~/engine";
+import { renderUnits, SI_UNITS } from "~/lib/shared/units";
 import { candidateEnergy } from "./energy";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, fluidOf, systemSpec, type Adjustment, type SystemInput } from "./hydraulics";
 
@@ -68,6 +69,7 @@ describe("2 pumps in parallel (+1 standby), fixed speed throttled: NPSH where 1 
   it("no NPSHr at one pump's share (published to 30 m³/h only): not judged, said at the step", () => {
     const notes = npshNotes(input([0.5]), set(30)); // 36 m³/h on one pump
     expect(notes.map((w) => w.code)).toEqual(["staged-npsh-not-judged"]);
-    expect(notes[0].message).toContain("not judged: the curve has no NPSHr at one pump's share");
+    // Where the NPSHr curve ends, with one pump's flow (staged-npshr-reach.test.ts; it said "the curve has no NPSHr at one pump's share").
+    expect(renderUnits(notes[0].message, SI_UNITS)).toContain("not judged: the NPSHr curve ends at 30.0 m³/h, and the pump runs past it at 36.0 m³/h (NPSHa");
   });
 });

@@ -30,7 +30,8 @@ import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import { minFlowOnCycle } from "./verdict-min-flow";
-import { cycleCurves } from "./cycle-curve";
+import { cycleCurves, npshrOnCycle } from "./cycle-curve";
+import type { NpshrPublished } from "./npshr-reach";
 import type { SystemInput } from "./system-input";
 
 const CONTROL_IDS = CONTROL_MODES.map((m) => m.id) as [ControlMode, ...ControlMode[]];
@@ -162,6 +163,8 @@ type EvaluatedLike = {
     /** ANSI/HI 9.6.7 B at the candidate's speed and how the curve stands on the liquid (hydraulics.ts; absent: water). */
     viscosityB?: number | null;
     viscosity?: { status: string } | null;
+    /** Where one pump's NPSHr is published (npshr-reach.ts): the words of a staged step whose share has none (staging-npsh.ts). */
+    npsh?: { npshrPublished?: NpshrPublished | null } | null;
   } | null;
 };
 
@@ -229,7 +232,7 @@ export function candidateEnergy(
         out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: one!, dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
         // One pump alone at the larger share Q/k needs more NPSH: judged at each step with fewer pumps running.
         if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null)
-          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one!, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin }));
+          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one!, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin, npshrPublished: npshrOnCycle({ adjustment: c.adjustment, result: r }, mode.vfd) }));
       } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, arrangement: c.adjustment.arrangement === "series" && pumps > 1 ? "series" : undefined });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);

@@ -11,7 +11,6 @@ import {
   operatingFigures,
   pipeHeadLoss,
   prepareSystem,
-  sampleCurve,
   scaleBySpeed,
   scaleByTrim,
   solveOperatingPoint,
@@ -42,7 +41,7 @@ import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, 
 import { fmtNumExact, qt, qtAboveZero, qtPair } from "~/engine/quantityText";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
-import { npshrPublished } from "./npshr-reach";
+import { npshrPublished, samplesWithNpshrEnds } from "./npshr-reach";
 
 export type RunReport = {
   name: string;
@@ -263,14 +262,8 @@ export function evaluateCandidate(
   const combined = both.curve;
   const op = solveOperatingPoint(combined, sysHead);
   warnings.push(...wText(op.warnings));
-  const sampled = sampleCurve(combined, 41, prepared.fluid.density);
-  const curveOut = sampled.flows.map((q, i) => ({
-    flow: q,
-    head: sampled.head[i],
-    efficiency: sampled.efficiency?.[i] ?? null,
-    power: sampled.power?.[i] ?? null,
-    npshr: sampled.npshr?.[i] ?? null,
-  }));
+  // 41 samples, and the NPSHr curve's ends between them: the duty cycle's curve reads NPSHr as far as published (npshr-reach.ts).
+  const curveOut = samplesWithNpshrEnds(combined, 41, prepared.fluid.density);
   let figures: CandidateEvaluation["figures"] = null;
   let por: CandidateEvaluation["por"] = null;
   let perPumpFlow: number | null = null;

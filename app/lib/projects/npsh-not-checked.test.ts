@@ -14,6 +14,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CandidateTable } from "~/components/CandidateTable";
 import { candidateSeries, npshNoteOf } from "~/components/workbench";
+import { NPSHR_END_ROUNDING } from "~/engine";
 import { inSI } from "~/engine/quantityText";
 import { renderUnits, SI_UNITS } from "~/lib/shared/units";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type SystemInput } from "./hydraulics";
@@ -84,18 +85,22 @@ describe("the NPSHr curve ends before the duty flow: 'NPSH not checked' on the v
   });
 });
 
-describe("the flip: the least-lift corner's flow crossing the NPSHr curve's last published flow (0.012 m³/s)", () => {
+describe("the flip: the least-lift corner's flow crossing the NPSHr curve's last published flow (0.012 m³/s) and its rounding allowance", () => {
   const END = 0.012;
+  // A flow within 1 part in 10⁹ of the last published flow reads the NPSHr there (engine npshrEnds.ts NPSHR_END_ROUNDING):
+  // the flip lies at END × (1 + 1e-9), the allowance's edge (npshr-end-rounding.test.ts: 1e-12 past judged, 1e-6 not).
+  const EDGE = END * (1 + NPSHR_END_ROUNDING);
   const at = (staticLow: number) => evaluate({ ...defaultSystemInput(), staticLow }, END);
   const maxFlow = (r: R) => Math.max(...(r.npsh.judgedAt ?? []).map((p) => p.flow ?? 0));
   // The least lift lowered moves its corner's flow up (bisection on the static head, m): lo judged everywhere, hi not.
   let lo = 10, hi = 0;
-  for (let i = 0; i < 60; i++) { const mid = (lo + hi) / 2; if (maxFlow(at(mid)) <= END) lo = mid; else hi = mid; }
+  for (let i = 0; i < 60; i++) { const mid = (lo + hi) / 2; if (maxFlow(at(mid)) <= EDGE) lo = mid; else hi = mid; }
   const judged = at(lo), past = at(hi);
-  it("bisection found it: every point judged on one side, one corner just past the NPSHr on the other", () => {
+  it("bisection found it: every point judged on one side, one corner just past the NPSHr's allowance on the other", () => {
     expect(hi - lo).toBeLessThan(1e-9);
-    expect(maxFlow(judged)).toBeLessThanOrEqual(END);
-    expect(maxFlow(past)).toBeGreaterThan(END);
+    expect(maxFlow(judged)).toBeLessThanOrEqual(EDGE);
+    expect(maxFlow(judged)).toBeGreaterThan(END); // judged a rounding error past the published end
+    expect(maxFlow(past)).toBeGreaterThan(EDGE);
     for (const r of [judged, past]) expect(["meets", "oversized"]).toContain(r.verdict?.status);
   });
   it("judged everywhere: the verdict carries no 'not checked' (NPSHa / NPSHr well above 1.1 here: nothing)", () => {
@@ -106,7 +111,8 @@ describe("the flip: the least-lift corner's flow crossing the NPSHr curve's last
   it("a corner just past it: 'but NPSH not checked: … no NPSHr at … (least lift, new pipe); where judged, the lowest …'", () => {
     expect(past.npsh.status).toBe("unknown");
     const note = renderUnits(verdictNpshNote(past.verdict, past.npsh) ?? "", SI_UNITS);
-    // The corner's flow lies a rounding error past the end (bisected to 1e-15), within the 9 significant digits a text prints.
+    // The corner's flow lies 1 part in 10⁹ past the end (bisected to 1e-15): 43.2000000432 m³/h, still "43.2000000" at the
+    // 9 significant digits a text prints (flows from 1 to about 1.2 parts in 10⁹ past 43.2 m³/h read so; reported, not fixed).
     expect(note).toMatch(/^(but|and) NPSH not checked: the NPSHr curve ends at 43\.2 m³\/h, and the pump runs past it at 43\.2\d* m³\/h \(least lift, new pipe\)(, [^;]+)?; where judged, the lowest NPSHa \/ NPSHr is \d+\.\d\d at /);
     for (const [where, text] of Object.entries(surfaces(past, { ...defaultSystemInput(), staticLow: hi }, END))) expect(text, where).toMatch(/NPSH not checked/);
   });

@@ -104,6 +104,31 @@ describe("pumps in parallel: one pump's flow against one pump's NPSHr curve", ()
   });
 });
 
+describe("pumps in parallel on a curve that publishes no NPSHr at all: each pump's flow, never the total", () => {
+  const two: Adjustment = { ...DEFAULT_ADJUSTMENT, arrangement: "parallel", dutyPumps: 2, standbyPumps: 0 };
+  const r = evaluate(defaultSystemInput(), () => false, two);
+  const design = r.npsh.judgedAt![0];
+  it("'the curve publishes no NPSHr, and each pump runs at …' with half the total at each point (old code: 'the curve publishes no NPSHr at 68.9 m³/h (design point), …', the total)", () => {
+    expect(r.npsh.npshrPublished).toBeNull(); // control: none published
+    expect(design.pumpFlow! * 2).toBeCloseTo(design.flow!, 12); // identical pumps share the flow equally (common practice)
+    expect(note(r)).toMatch(new RegExp(`^(but|and) NPSH not checked: the curve publishes no NPSHr, and each pump runs at ${FLOW} \\(design point\\), ${FLOW} \\(least lift, new pipe\\), ${FLOW} \\(least lift, aged pipe\\), ${FLOW} \\(most lift, new pipe\\), ${FLOW} \\(most lift, aged pipe\\)$`));
+    const shown = [...note(r).matchAll(/(\d+\.\d+) m³\/h \(([^)]+)\)/g)].map((m) => [m[2], Number(m[1])]);
+    expect(shown.map(([at]) => at)).toEqual(r.npsh.judgedAt!.map((p) => p.at));
+    for (const [at, q] of shown) expect(q).toBeCloseTo((r.npsh.judgedAt!.find((p) => p.at === at)!.flow! / 2) * 3600, 1);
+  });
+  it("the table's NPSH margin row at the operating point: each pump's flow too", () => {
+    const view = { evaluation: null, systemError: null, flowMax: 0.04, needsReview: [], candidates: [{ id: 1, curveSetId: 1, label: "P", library: "L", adjustment: two, result: r, error: null, energy: null }] } as unknown as WorkbenchView;
+    const html = renderToStaticMarkup(createElement(CandidateTable, { view, unitSystem: SI_UNITS }));
+    const cell = (/<th scope="row"[^>]*>NPSH margin<\/th><td[^>]*>(.*?)<\/td>/.exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
+    expect(cell).toMatch(new RegExp(`^not checked: the curve publishes no NPSHr, and each pump runs at ${FLOW}$`));
+    expect(Number(/at (\d+\.\d+) m³/.exec(cell)![1])).toBeCloseTo((design.flow! / 2) * 3600, 1);
+  });
+  it("one pump alone keeps its words: 'the curve publishes no NPSHr at …' (its flow is the total)", () => {
+    const one = evaluate(defaultSystemInput(), () => false);
+    expect(note(one)).toMatch(new RegExp(`^but NPSH not checked: the curve publishes no NPSHr at ${FLOW} \\(design point\\), `));
+  });
+});
+
 describe("a selection frozen before the NPSHr's reach was kept names what it holds, as before", () => {
   it("no npshrPublished: 'the curve publishes no NPSHr at …'", () => {
     const r = evaluate(defaultSystemInput(), upTo(0.008));

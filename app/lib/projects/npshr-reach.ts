@@ -14,6 +14,7 @@
 // (searchIndex.ts `PackBuilder.end`) alike: the search neither leaves such a pump out nor passes it on NPSH at the
 // duty (its NPSHr there is null), and its row and the candidates table both say "NPSH not checked: the curve publishes
 // NPSHr at one flow only (3.20 m at 150 m³/h): one point is no curve to read it at …" with the flows, from one judgement.
+import { efficiencyAt, headAt, npshrAt, NPSHR_END_ROUNDING, sampleCurve, shaftPowerAt, type PumpCurve } from "~/engine";
 import { qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 /**
@@ -60,17 +61,22 @@ export function whyNoNpshr(pub: NpshrPublished | null | undefined, p: At): strin
  * "the NPSHr curve ends at ⟦flow|0.008⟧, and the pump runs past it at ⟦flow|0.0101⟧ (design point), …";
  * "the NPSHr curve starts at …, and the pump runs below it at …";
  * "the curve publishes NPSHr at one flow only (⟦head|3.2⟧ at ⟦flow|0.0417⟧): one point is no curve to read it at …";
- * "the curve publishes no NPSHr at …" (none at all, or a selection frozen before the reach was kept).
+ * "the curve publishes no NPSHr at …" (none at all, or a selection frozen before the reach was kept); pumps in parallel
+ * "the curve publishes no NPSHr, and each pump runs at ⟦flow|0.00958⟧ (design point), …" (one pump's flow, not the total).
  * @param pub what the curve publishes (null: none; undefined: not known)
  * @param points the points with an operating point and no NPSHr (flows m³/s)
  * @param named whether each flow is followed by where it is ("(design point)"); the table's row at the operating point leaves it out
  */
 export function npshrGapClauses(pub: NpshrPublished | null | undefined, points: readonly At[], named = true): string[] {
   if (!points.length) return [];
-  const several = pub != null && pub.pumps > 1;
+  // Several pumps run together: the count kept with what the curve publishes; where it publishes none (no count kept),
+  // pumps in parallel are told by their points, whose one pump's flow is not the total (each pump takes its share).
+  const several = pub != null ? pub.pumps > 1 : points.some((p) => p.pumpFlow != null && p.flow != null && p.pumpFlow !== p.flow);
   const runs = several ? "each pump runs" : "the pump runs";
   const list = (ps: readonly At[], against: number[]) => ps.map((p) => `${qtExact("flow", pumpFlowOf(p), against)}${named ? ` (${p.at})` : ""}`).join(", ");
-  if (pub == null) return [`the curve publishes no NPSHr at ${points.map((p) => `${qt("flow", p.flow!)}${named ? ` (${p.at})` : ""}`).join(", ")}`];
+  // No NPSHr where the pumps run: with several, each pump's flow, as the words past an end give it, never the total.
+  const none = (ps: readonly At[]) => (several ? `the curve publishes no NPSHr, and each pump runs at ${list(ps, [])}` : `the curve publishes no NPSHr at ${list(ps, [])}`);
+  if (pub == null) return [several ? none(points) : `the curve publishes no NPSHr at ${points.map((p) => `${qt("flow", p.flow!)}${named ? ` (${p.at})` : ""}`).join(", ")}`];
   if (pub.points === 1)
     return [`the curve publishes NPSHr at one flow only (${qt("head", pub.single!)} at ${qtLimit("flow", pub.from, points.map(pumpFlowOf))}${several ? " for one pump" : ""}): one point is no curve to read it at ${list(points, [pub.from])}`];
   const curve = several ? "one pump's NPSHr curve" : "the NPSHr curve";
@@ -80,6 +86,34 @@ export function npshrGapClauses(pub: NpshrPublished | null | undefined, points: 
   const out: string[] = [];
   if (past.length) out.push(`${curve} ends at ${qtLimit("flow", pub.to, past.map(pumpFlowOf))}, and ${runs} past it at ${list(past, [pub.to])}`);
   if (before.length) out.push(`${curve} starts at ${qtLimit("flow", pub.from, before.map(pumpFlowOf))}, and ${runs} below it at ${list(before, [pub.from])}`);
-  if (inside.length) out.push(`the curve publishes no NPSHr at ${list(inside, [])}`);
+  if (inside.length) out.push(none(inside));
+  return out;
+}
+
+/** One sampled point of a curve as the result keeps it (SI: m³/s, m, fraction, W, m; null where the column has none). */
+export type SampledPoint = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null };
+
+/**
+ * The curve sampled at `count` evenly spaced flows (engine `sampleCurve`) and at its NPSHr column's first and last published
+ * flows where they fall between two samples (m³/s; SI throughout). The result's sampled curve is what the duty cycle
+ * rebuilds its curves from (cycle-curve.ts), and its NPSHr stopped at the last sample before the published end — up to a
+ * fortieth of the curve's flows short: a staged step one pump runs at 29.5 m³/h, on an NPSHr curve published to 30.0 m³/h,
+ * was "not judged". With both ends kept, the rebuilt curve's NPSHr reaches where the published one does (to a rounding
+ * error, read by the engine's allowance, npshrEnds.ts `NPSHR_END_ROUNDING`). An end within that allowance of a sample is
+ * the sample.
+ * @param curve the curve as run (SI)
+ * @param count evenly spaced samples (count)
+ * @param density the liquid's density for the power column, kg/m³
+ */
+export function samplesWithNpshrEnds(curve: PumpCurve, count: number, density: number): SampledPoint[] {
+  const s = sampleCurve(curve, count, density);
+  const out: SampledPoint[] = s.flows.map((q, i) => ({ flow: q, head: s.head[i], efficiency: s.efficiency[i] ?? null, power: s.power[i] ?? null, npshr: s.npshr[i] ?? null }));
+  const n = curve.npshr;
+  if (!n) return out;
+  for (const end of [n.x[0], n.x[n.x.length - 1]]) {
+    if (!(end > curve.flowMin && end < curve.flowMax) || out.some((p) => Math.abs(p.flow - end) <= NPSHR_END_ROUNDING * end)) continue;
+    const at = out.findIndex((p) => p.flow > end);
+    out.splice(at, 0, { flow: end, head: headAt(curve, end)!, efficiency: efficiencyAt(curve, end), power: shaftPowerAt(curve, end, density), npshr: npshrAt(curve, end) });
+  }
   return out;
 }

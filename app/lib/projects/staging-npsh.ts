@@ -16,6 +16,7 @@ import {
   type PumpCurve,
 } from "~/engine";
 import { fmtNumExact, fmtPct, qt, qtAboveZero, qtExact } from "~/engine/quantityText";
+import { npshrGapClauses, npshrPublished, type NpshrPublished } from "./npshr-reach";
 
 /** The rule in words, with the wanted ratio (dimensionless), as each warning states it. */
 export const stagedNpshRule = (wanted: number): string =>
@@ -34,12 +35,28 @@ export type StagedNpshInput = {
   suction: { surfacePressure: number; staticHead: number };
   /** The system's wanted NPSHa / NPSHr (`npshMargin`, dimensionless). */
   requiredMargin: number;
+  /**
+   * The NPSHr one pump's curve publishes, at `pumpCurve`'s speed (the candidate's judgement's, cycle-curve.ts
+   * `npshrOnCycle`): where a step's share has none, the words say where the NPSHr curve stops, or that it publishes one
+   * point only, as the verdict's line does (npshr-reach.ts). Null: none published; absent: read off `pumpCurve`'s points.
+   */
+  npshrPublished?: NpshrPublished | null;
 };
+
+/**
+ * What one pump's curve publishes at a step run at `speed` × the curve's speed, k pumps running: its flows × speed and its
+ * one NPSHr × speed² (affinity laws, Q ∝ N and NPSHr ∝ N², as the step's NPSHr is read), the words' count k.
+ */
+function publishedAtStep(pub: NpshrPublished | null, speed: number, k: number): NpshrPublished | null {
+  if (pub == null) return null;
+  return { from: pub.from * speed, to: pub.to * speed, points: pub.points, single: pub.single == null ? null : pub.single * speed * speed, pumps: k };
+}
 
 /**
  * Warnings at each counted step where fewer than all duty pumps run (`parameter` "profile[i]", shown at the step): a low
  * margin or a cavitation risk with NPSHa, NPSHr, their ratio and the rule; "not judged" where the curve has no NPSHr at
- * one pump's share. Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
+ * one pump's share, saying where the NPSHr curve stops with one pump's flow ("not judged: the NPSHr curve ends at 30.0 m³/h,
+ * and the pump runs past it at 36.0 m³/h"; npshr-reach.ts, as the verdict's line). Under a drive one pump's NPSHr is taken at the step's speed by the affinity laws (NPSHr ∝ N², as the
  * engine's `scaleBySpeed` takes the NPSHr column): s² · NPSHr(share / s). No warning where the margin is met. A step of
  * 0 h a year is judged too, its warning marked "(0 h a year: information only)" as every note at such a step
  * (engine `markNeverRun`); it qualifies no verdict (verdict-staged-npsh.ts).
@@ -48,6 +65,7 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
   const out: StagedNpshWarning[] = [];
   const fluid = input.prepared.fluid;
   const wanted = input.requiredMargin;
+  const published = input.npshrPublished !== undefined ? input.npshrPublished : npshrPublished(input.pumpCurve.points, 1);
   input.cycle.steps.forEach((s, i) => {
     const k = s.pumpsRunning;
     const n = s.dutyPumps;
@@ -65,7 +83,11 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
       return;
     }
     if (nr == null || !(nr > 0)) {
-      out.push({ code: "staged-npsh-not-judged", parameter: `profile[${i}]`, message: `${where}; not judged: the curve has no NPSHr at one pump's share (${npsha}; ${stagedNpshRule(wanted)})` });
+      // Where the NPSHr curve stops and one pump's share beside it, the verdict's line's words (npshr-reach.ts).
+      const why = nr == null
+        ? `${npshrGapClauses(publishedAtStep(published, speed, k), [{ at: "", flow: s.flow, pumpFlow: share }], false).join("; ")}${speed !== 1 ? ` (its flows at ${fmtPct(speed)} speed, Q ∝ N, affinity laws)` : ""}`
+        : "the curve has no NPSHr at one pump's share";
+      out.push({ code: "staged-npsh-not-judged", parameter: `profile[${i}]`, message: `${where}; not judged: ${why} (${npsha}; ${stagedNpshRule(wanted)})` });
       return;
     }
     const ratio = na / nr;

@@ -1,0 +1,27 @@
+// Where NPSHr is read at the ends of its published column: the rounding allowance the workbench's curve (pumpCurve.ts
+// `npshrAt`) and the search's index (searchIndex.ts `evalNpshrPacked`) share, so both read NPSHr at the same flows.
+/**
+ * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁹). NPSHr is read off the published curve
+ * between its first and last published flow, never beyond (decision "npshone"); but a flow that reaches an end through
+ * arithmetic — a band corner solved by a root finder, one pump's share of a total, a flow scaled by a speed ratio and back
+ * — lands a rounding error either side of it (43.2000000001 m³/h at a curve ending at 43.2 m³/h), and a text showing at
+ * most 9 significant digits then read "the NPSHr curve ends at 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h".
+ * Rule: a flow within 1 part in 10⁹ of the NPSHr column's first or last published flow is at that flow and reads its
+ * NPSHr; further out it has none. The same allowance the app takes elsewhere for a flow at a limit (the maker's minimum
+ * flow, app/lib/projects/verdict-min-flow.ts), and the same in the search's index (searchIndex.ts `evalNpshrPacked`), so
+ * the search and the workbench read NPSHr at the same flows.
+ */
+export const NPSHR_END_ROUNDING = 1e-9;
+
+/**
+ * The flow NPSHr is read at: `flow` itself, or the NPSHr column's first or last published flow where `flow` lies within
+ * {@link NPSHR_END_ROUNDING} of it outside the column. For the engine's own lookups (`npshrAt`, the search's index).
+ * @param first the column's first published flow, m³/s (any unit of flow, the same for all three)
+ * @param last the column's last published flow, m³/s (same unit)
+ * @param flow the flow asked about, m³/s (same unit)
+ */
+export function npshrFlow(first: number, last: number, flow: number): number {
+  if (flow > last && flow <= last * (1 + NPSHR_END_ROUNDING)) return last;
+  if (flow < first && flow >= first * (1 - NPSHR_END_ROUNDING)) return first;
+  return flow;
+}
