@@ -13,10 +13,9 @@ import { systems as systemsTable } from "@db/schema";
 import { createLibrary, listModels, type Viewer } from "~/lib/libraries";
 import { addCandidate, createProject, createSystem, selectCandidate, setCandidatePrice, systemWorkbench } from "~/lib/projects";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, type SystemInput } from "~/lib/projects/hydraulics";
-import { systemFormValues } from "~/lib/projects/system-form";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
-import { SI_UNITS } from "~/lib/shared/units";
 import SystemPage, * as systemPage from "~/routes/systems.$id";
+import { editorPost } from "./editor-post";
 import { call, makeMember, type TestMember } from "./harness";
 import { renderPage } from "./render-page";
 import { selectionPages, textOf } from "./selection-pages";
@@ -50,17 +49,10 @@ beforeAll(async () => {
 });
 
 /** The editor's form for the stored system, as posted unchanged, with the energy fields given. */
-function form(input: SystemInput, energy: Record<string, string>): Record<string, string> {
-  const f = systemFormValues(input, SI_UNITS);
-  const out: Record<string, string> = {
-    intent: "save", name: "Zero", fluidKind: "water", temperature: f.temperature, mode: f.mode, staticLow: f.staticLow, staticHigh: f.staticHigh,
-    suctionSurfacePressure: f.suctionSurfacePressure, suctionStaticHead: f.suctionStaticHead, dutyFlow: f.dutyFlow, dutyHead: f.dutyHead,
-    npshMargin: f.npshMargin, hoursPerYear: f.hoursPerYear, tariffPerKWh: f.tariffPerKWh, runCount: String(f.runs.length),
-    "energy.control": "fixed-speed", "energy.profileKind": "user", "energy.years": "15", "energy.escalation": "", "energy.discount": "", ...energy,
-  };
-  f.runs.forEach((r, i) => Object.assign(out, { [`run.${i}.side`]: r.side, [`run.${i}.name`]: r.name, [`run.${i}.table`]: r.table, [`run.${i}.nominal`]: r.nominal, [`run.${i}.diameter`]: r.diameter, [`run.${i}.length`]: r.length, [`run.${i}.material`]: r.material, [`run.${i}.materialShown`]: r.materialShown }));
-  return out;
-}
+const form = (input: SystemInput, energy: Record<string, string>): Record<string, string> => ({
+  ...editorPost(input, "Zero"),
+  "energy.control": "fixed-speed", "energy.profileKind": "user", "energy.years": "15", "energy.escalation": "", "energy.discount": "", ...energy,
+});
 const steps = (rows: [string, string][]) => Object.fromEntries(rows.flatMap(([pct, h], i) => [[`energy.step.${i}.pct`, pct], [`energy.step.${i}.hours`, h]]));
 const storedJson = async (id: number) => (await db().select().from(systemsTable).where(eq(systemsTable.id, id)))[0].inputJson;
 const post = (id: number, fields: Record<string, string>) =>

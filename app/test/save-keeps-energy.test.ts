@@ -12,10 +12,9 @@ import { systems } from "@db/schema";
 import type { Viewer } from "~/lib/libraries";
 import { createProject, createSystem } from "~/lib/projects";
 import type { SystemInput } from "~/lib/projects/hydraulics";
-import { systemFormValues } from "~/lib/projects/system-form";
 import { boosterInput, viewerOfUser } from "~/lib/projects/test-kit";
-import { SI_UNITS } from "~/lib/shared/units";
 import * as systemPage from "~/routes/systems.$id";
+import { editorPost } from "./editor-post";
 import { call, makeMember, type TestMember } from "./harness";
 
 afterAll(() => closeDb());
@@ -43,19 +42,7 @@ async function storedInput(id: number): Promise<SystemInput> {
 }
 
 /** The editor's fields for `input` without any energy.* field (what an older page or a script posts). */
-function formWithoutEnergy(input: SystemInput, name = "Kept"): Record<string, string> {
-  const f = systemFormValues(input, SI_UNITS);
-  const out: Record<string, string> = {
-    intent: "save", name, fluidKind: "water", temperature: f.temperature, mode: f.mode, staticLow: f.staticLow, staticHigh: f.staticHigh,
-    pressureDifference: f.pressureDifference, suctionSurfacePressure: f.suctionSurfacePressure, suctionStaticHead: f.suctionStaticHead,
-    dutyFlow: f.dutyFlow, dutyHead: f.dutyHead, npshMargin: f.npshMargin, hoursPerYear: f.hoursPerYear, tariffPerKWh: f.tariffPerKWh, runCount: String(f.runs.length),
-  };
-  f.runs.forEach((r, i) => {
-    const p = `run.${i}.`;
-    Object.assign(out, { [`${p}side`]: r.side, [`${p}name`]: r.name, [`${p}table`]: r.table, [`${p}nominal`]: r.nominal, [`${p}diameter`]: r.diameter, [`${p}length`]: r.length, [`${p}material`]: r.material, [`${p}materialShown`]: r.materialShown });
-  });
-  return out;
-}
+const formWithoutEnergy = (input: SystemInput, name = "Kept"): Record<string, string> => editorPost(input, name);
 
 const save = (id: number, form: Record<string, string>) => call(systemPage.action as never, { path: `/systems/${id}`, params: { id: String(id) }, cookie: m.cookie, form });
 

@@ -14,10 +14,9 @@ import { systems } from "@db/schema";
 import type { Viewer } from "~/lib/libraries";
 import { createProject, createSystem } from "~/lib/projects";
 import { tableRun, type PipeRunInput, type SystemInput } from "~/lib/projects/hydraulics";
-import { systemFormValues } from "~/lib/projects/system-form";
 import { boosterInput, viewerOfUser } from "~/lib/projects/test-kit";
-import { SI_UNITS } from "~/lib/shared/units";
 import * as systemPage from "~/routes/systems.$id";
+import { editorPost } from "./editor-post";
 import { call, makeMember, type TestMember } from "./harness";
 
 afterAll(() => closeDb());
@@ -41,18 +40,7 @@ async function storedRunsOf(id: number): Promise<PipeRunInput[]> {
 }
 
 /** The editor's form for `runs` as the page posts them unchanged, numbered from 0 in the order given. */
-function pageForm(runs: PipeRunInput[]): Record<string, string> {
-  const f = systemFormValues({ ...boosterInput(), runs }, SI_UNITS);
-  const out: Record<string, string> = {
-    intent: "save", name: "Moved", fluidKind: "water", temperature: f.temperature, mode: f.mode, staticLow: f.staticLow, staticHigh: f.staticHigh,
-    suctionSurfacePressure: f.suctionSurfacePressure, suctionStaticHead: f.suctionStaticHead, dutyFlow: f.dutyFlow, dutyHead: f.dutyHead, npshMargin: f.npshMargin, runCount: String(f.runs.length),
-  };
-  f.runs.forEach((r, i) => {
-    const p = `run.${i}.`;
-    Object.assign(out, { [`${p}side`]: r.side, [`${p}name`]: r.name, [`${p}table`]: r.table, [`${p}nominal`]: r.nominal, [`${p}diameter`]: r.diameter, [`${p}length`]: r.length, [`${p}material`]: r.material, [`${p}materialShown`]: r.materialShown });
-  });
-  return out;
-}
+const pageForm = (runs: PipeRunInput[]): Record<string, string> => editorPost({ ...boosterInput(), runs }, "Moved");
 
 const save = (id: number, form: Record<string, string>) => call(systemPage.action as never, { path: `/systems/${id}`, params: { id: String(id) }, cookie: m.cookie, form });
 const errorsOf = (a: { body: unknown }) => (a.body as { errors: Record<string, string> }).errors;
