@@ -15,13 +15,7 @@ import { npshrAt, searchDuty, prepareSearchIndex, headAt, createPumpCurve } from
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type SystemInput } from "./hydraulics";
 import { verdictNpshNote } from "./verdict-npsh";
 
-const FLOWS = [0, 0.004, 0.008, 0.012, 0.016]; // m³/s
-const pump = (keep: (q: number) => boolean) => ({
-  points: FLOWS.map((q) => ({ flow: q, head: 24 - 84979 * q * q, efficiency: q === 0 ? 0 : 0.75 * (1 - ((q - 0.01) / 0.01) ** 2), power: null, npshr: keep(q) ? 2.5 : null })),
-  speed: 2900, impellerDiameter: null,
-});
-const upTo = (end: number) => (q: number) => q <= end;
-const from = (start: number) => (q: number) => q >= start;
+import { npshrPump as pump, upTo, from } from "./npshr-fixture";
 type R = ReturnType<typeof evaluateCandidate>;
 const note = (r: R) => renderUnits(verdictNpshNote(r.verdict, r.npsh) ?? "", SI_UNITS);
 const corner = (r: R, at: string) => r.npsh.judgedAt!.find((p) => p.at === at)!;

@@ -17,14 +17,7 @@ import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustm
 import { verdictNpshNote } from "./verdict-npsh";
 import type { WorkbenchView } from "./workbench-view";
 
-const FLOWS = [0, 0.004, 0.008, 0.012, 0.016]; // m³/s
-/** The invented pump with NPSHr 2.5 m published at the flows `keep` takes, blank at the others. */
-const pump = (keep: (q: number) => boolean) => ({
-  points: FLOWS.map((q) => ({ flow: q, head: 24 - 84979 * q * q, efficiency: q === 0 ? 0 : 0.75 * (1 - ((q - 0.01) / 0.01) ** 2), power: null, npshr: keep(q) ? 2.5 : null })),
-  speed: 2900, impellerDiameter: null,
-});
-const upTo = (end: number) => (q: number) => q <= end;
-const from = (start: number) => (q: number) => q >= start;
+import { npshrPump as pump, upTo, from } from "./npshr-fixture";
 const evaluate = (input: SystemInput, keep: (q: number) => boolean, adj: Adjustment = DEFAULT_ADJUSTMENT) => evaluateCandidate(input, pump(keep), adj);
 type R = ReturnType<typeof evaluate>;
 const note = (r: R, units = SI_UNITS) => renderUnits(verdictNpshNote(r.verdict, r.npsh) ?? "", units);
