@@ -63,11 +63,11 @@ export const NO_PRICE_WORDS = "purchase price not given: energy alone";
  * is of without a purchase price, marked when incomplete, with the priced steps outside the pump's allowable flow range
  * (lcc-range-note.ts) and its warnings (rule and numbers); why there is none when hours or tariff are not given.
  */
-export function lccText(e: Energy | null | undefined, currency: string, rates = false): string {
+export function lccText(e: Energy | null | undefined, currency: string, rates = false, withRange = true): string {
   const lcc = lccShown(e);
   // `rates`: the period with the rates it was computed with ("over 15 years at a tariff escalation of +3 %/year and a discount rate of 5 %/year"), for the printed line.
   if (lcc) {
-    const range = lccRangeNoteOf(e);
+    const range = withRange ? lccRangeNoteOf(e) : null;
     return `${moneyText(lcc.total, currency)} ${rates ? lccRatesText(lcc) : `over ${lccYears(lcc)}`}${lcc.purchaseGiven ? "" : ` (${NO_PRICE_WORDS})`}${incompleteMark(e!.cycle)}${range ? ` — ▲ ${range}` : ""}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
   }
   const none = noStepCounted(e?.cycle);
@@ -86,7 +86,12 @@ export const energyRows = (currency: string, hours = ""): [string, (c: Cand) => 
   [`Energy per year over the duty cycle${hours}`, (c) => cycleEnergyText(c.energy, cycleBasis(c))],
   // As entered for the candidate as offered: with several pumps, the price of all of them (standby included).
   ["Purchase price", (c) => `${moneyText(c.energy?.purchasePrice, currency)}${c.energy?.purchasePrice != null && cycleBasis(c) ? ` for all ${cycleBasis(c)!.arrangement}` : ""}`],
-  ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
+  // The steps priced outside the allowable flow range beside the cost on screen; printed once, on the report's energy line
+  // (SelectionEnergy), so the report keeps to two pages.
+  ["Life-cycle cost (present value)", (c) => {
+    const range = lccRangeNoteOf(c.energy);
+    return range ? <>{lccText(c.energy, currency, false, false)}<span className="no-print"> — ▲ {range}</span></> : lccText(c.energy, currency);
+  }],
 ];
 
 export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string> }) {

@@ -6,7 +6,7 @@
 // names those steps too, with one pump's flow, the limit and the rule, so nobody compares the cost without them.
 // Only steps with hours that are priced (counted and run: a 0 h step never runs, decision "npshzero"). Pure; quantities
 // as tokens (quantityText.ts), rendered by the caller's `renderDeep` with the rest of the energy.
-import { COUNTED_STEP_STATUSES, STEP_BELOW_MAKER_MIN_FLOW, STEP_MAKER_MIN_FLOW_RULE, STEP_MIN_FLOW_FRACTION, STEP_MIN_FLOW_RULE } from "~/engine";
+import { COUNTED_STEP_STATUSES, STEP_BELOW_MAKER_MIN_FLOW, STEP_MIN_FLOW_FRACTION } from "~/engine";
 import { fmtPctExact, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 
 type CycleLike = {
@@ -41,16 +41,17 @@ function outsideSteps(cycle: CycleLike): { maker: string[]; bep: string[] } {
 /**
  * What the life-cycle cost's line says beside the cost where the pump is priced at steps outside its allowable flow range,
  * or null where no priced step is: "priced as if the pump ran normally at 1 step outside its allowable flow range — below
- * 50 % of BEP flow (…rule…): 25 % flow, 3000 h: 9.00 m³/h a pump, 25 % of its BEP flow 36.0 m³/h; the wear of those hours
- * (…) is not in this cost".
+ * 50 % of BEP flow (a common lower bound …): 25 % flow, 3000 h: 9.00 m³/h a pump, 25 % of its BEP flow 36.0 m³/h; their
+ * wear (…) is not in this cost".
  */
 export function lccRangeNote(cycle: CycleLike): string | null {
   const { maker, bep } = outsideSteps(cycle);
   const n = maker.length + bep.length;
   if (n === 0) return null;
+  // The rules in short (the step's own note says them in full, stepPor.ts): the printed report keeps to its two pages.
   const parts = [
-    maker.length ? `below the maker's minimum continuous flow (${STEP_MAKER_MIN_FLOW_RULE}): ${maker.join("; ")}` : "",
-    bep.length ? `${STEP_MIN_FLOW_RULE}: ${bep.join("; ")}` : "",
+    maker.length ? `below the maker's minimum continuous flow (no continuous running below it, the maker's rule): ${maker.join("; ")}` : "",
+    bep.length ? `below ${STEP_MIN_FLOW_FRACTION * 100} % of BEP flow (a common lower bound for continuous running; common practice, from memory): ${bep.join("; ")}` : "",
   ].filter(Boolean);
-  return `priced as if the pump ran normally at ${n === 1 ? "1 step" : `${n} steps`} outside its allowable flow range — ${parts.join("; and ")}; the wear of those hours (recirculation, heating, vibration, bearing and seal life) and a pump, bypass or staging that avoids it are not in this cost`;
+  return `priced as if the pump ran normally at ${n === 1 ? "1 step" : `${n} steps`} outside its allowable flow range — ${parts.join("; and ")}; their wear (recirculation, heating, vibration, bearings and seals) is not in this cost`;
 }
