@@ -12,7 +12,7 @@ import { EnergySettingsSchema } from "./energy";
 import { defaultSystemInput } from "./hydraulics";
 
 const base = defaultSystemInput();
-const settings = (profile: [number, number][], o: Partial<{ control: "fixed-speed" | "vfd-system-curve"; years: number; escalation: number; discountRate: number }> = {}) =>
+const settings = (profile: [number, number][], o: Partial<{ years: number; escalation: number; discountRate: number }> = {}) =>
   ({ ...base.energy!, control: "fixed-speed" as const, profile: profile.map(([flowFraction, hours]) => ({ flowFraction, hours })), ...o });
 const energy = (profile: [number, number][], o: Parameters<typeof settings>[1] = {}, price: number | null = 250000) => fixtureEnergy({ energy: settings(profile, o) }, price);
 /** The fixture pump's electrical input at its full-duty step (W), read once; every energy below is hand-multiplied from it. */

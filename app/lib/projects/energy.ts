@@ -149,10 +149,7 @@ export type CandidateEnergy = {
    * life-cycle cost is given. Absent in selections frozen before 2026-12-02.
    */
   costMissing?: string | null;
-  /**
-   * Beside the life-cycle cost: the priced steps where the pump runs outside its allowable flow range, with their flows and
-   * the rule (lcc-range-note.ts); null with none or no cost. Absent in selections frozen before 2026-12-04 (`lccRangeNoteOf`).
-   */
+  /** Beside the life-cycle cost: its priced steps outside the allowable flow range (lcc-range-note.ts); absent: frozen before. */
   lccRangeNote?: string | null;
   assumptions: string[];
 };
@@ -340,14 +337,11 @@ export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnerg
   e?.lcc && !noStepCounted(e.cycle) ? e.lcc : null;
 
 /**
- * What the life-cycle cost's line says of the priced steps outside the pump's allowable flow range (lcc-range-note.ts), or
- * null: as kept with the energy (its flows as tokens, rendered with it), else, for a selection frozen before it was kept,
- * worked out again from the frozen cycle (its notes' ratios; the flows as the step's note gives them).
+ * The life-cycle cost's note on its priced steps outside the allowable flow range (lcc-range-note.ts), or null: as kept with
+ * the energy (flows as tokens, rendered with it), else worked out again from a cycle frozen before (its notes' ratios).
  */
-export const lccRangeNoteOf = (e: Pick<CandidateEnergy, "lccRangeNote" | "cycle"> & { lcc: LifeCycleResult | null } | null | undefined): string | null => {
-  if (!e || !lccShown(e)) return null;
-  return e.lccRangeNote !== undefined ? e.lccRangeNote : lccRangeNote(e.cycle);
-};
+export const lccRangeNoteOf = (e: Pick<CandidateEnergy, "lccRangeNote" | "cycle"> & { lcc: LifeCycleResult | null } | null | undefined): string | null =>
+  !e || !lccShown(e) ? null : e.lccRangeNote !== undefined ? e.lccRangeNote : lccRangeNote(e.cycle);
 
 /** A life-cycle cost's period: "1 year", "15 years". */
 export const lccYears = (lcc: Pick<LifeCycleResult, "yearly">): string => `${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
