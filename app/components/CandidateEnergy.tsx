@@ -2,7 +2,7 @@
 // and energy at each step, the total per year) and its life-cycle cost, with the cumulative-cost chart.
 import { Fragment } from "react";
 import { Form } from "react-router";
-import { lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, pumpsRunningText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { lccRangeNoteOf, lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, pumpsRunningText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
@@ -55,14 +55,21 @@ export function cycleEnergyText(e: Energy | null | undefined, basis: PumpsBasis 
 /** The life-cycle cost's plausibility warnings (engine lifeCycleCost.ts; none in selections frozen before them). */
 export const lccWarnings = (lcc: Energy["lcc"] | undefined): string[] => (lcc?.warnings ?? []).map((w) => w.message);
 
+/** Beside a life-cycle cost with no purchase price: what it is of (a price of 0 is a price: nothing said). */
+export const NO_PRICE_WORDS = "purchase price not given: energy alone";
+
 /**
- * The life-cycle cost as one line: its total and years (with `rates`, the tariff escalation and discount rate too), marked
- * when incomplete, with its warnings (rule and numbers); why there is none when hours or tariff are not given.
+ * The life-cycle cost as one line: its total and years (with `rates`, the tariff escalation and discount rate too), what it
+ * is of without a purchase price, marked when incomplete, with the priced steps outside the pump's allowable flow range
+ * (lcc-range-note.ts) and its warnings (rule and numbers); why there is none when hours or tariff are not given.
  */
-export function lccText(e: Energy | null | undefined, currency: string, rates = false): string {
+export function lccText(e: Energy | null | undefined, currency: string, rates = false, withRange = true): string {
   const lcc = lccShown(e);
   // `rates`: the period with the rates it was computed with ("over 15 years at a tariff escalation of +3 %/year and a discount rate of 5 %/year"), for the printed line.
-  if (lcc) return `${moneyText(lcc.total, currency)} ${rates ? lccRatesText(lcc) : `over ${lccYears(lcc)}`}${incompleteMark(e!.cycle)}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  if (lcc) {
+    const range = withRange ? lccRangeNoteOf(e) : null;
+    return `${moneyText(lcc.total, currency)} ${rates ? lccRatesText(lcc) : `over ${lccYears(lcc)}`}${lcc.purchaseGiven ? "" : ` (${NO_PRICE_WORDS})`}${incompleteMark(e!.cycle)}${range ? ` — ▲ ${range}` : ""}${lccWarnings(lcc).map((w) => ` — ▲ ${w}`).join("")}`;
+  }
   const none = noStepCounted(e?.cycle);
   if (none) return `not computed (${none})`;
   return e?.costMissing ? `— (${e.costMissing})` : "—";
@@ -79,7 +86,12 @@ export const energyRows = (currency: string, hours = ""): [string, (c: Cand) => 
   [`Energy per year over the duty cycle${hours}`, (c) => cycleEnergyText(c.energy, cycleBasis(c))],
   // As entered for the candidate as offered: with several pumps, the price of all of them (standby included).
   ["Purchase price", (c) => `${moneyText(c.energy?.purchasePrice, currency)}${c.energy?.purchasePrice != null && cycleBasis(c) ? ` for all ${cycleBasis(c)!.arrangement}` : ""}`],
-  ["Life-cycle cost (present value)", (c) => lccText(c.energy, currency)],
+  // The steps priced outside the allowable flow range beside the cost on screen; printed once, on the report's energy line
+  // (SelectionEnergy), so the report keeps to two pages.
+  ["Life-cycle cost (present value)", (c) => {
+    const range = lccRangeNoteOf(c.energy);
+    return range ? <>{lccText(c.energy, currency, false, false)}<span className="no-print"> — ▲ {range}</span></> : lccText(c.energy, currency);
+  }],
 ];
 
 export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
@@ -253,6 +265,11 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
           Life-cycle cost over {lccYears(lcc)}: <strong>{moneyText(lcc.total, currency)}</strong> = purchase {lcc.purchaseGiven ? moneyText(lcc.purchase, currency) : "not given (0)"} + energy {moneyText(lcc.energyPresentValue, currency)} (present value)
           {moneySumNote([lcc.purchase, lcc.energyPresentValue], lcc.total, currency)}
           {e?.cycle && !e.cycle.complete ? ` — understated${incompleteMark(e.cycle)}: their energy is missing` : ""}.
+        </p>
+      ) : null}
+      {lccRangeNoteOf(e) ? (
+        <p className="text-xs text-duty-ink" data-testid={`lcc-range-${c.id}`}>
+          ▲ Life-cycle cost {lccRangeNoteOf(e)}.
         </p>
       ) : null}
       {lccWarnings(lcc).length > 0 ? (

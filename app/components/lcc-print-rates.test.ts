@@ -17,7 +17,7 @@ const printed = (escalation: number, discountRate: number, years = 12) => {
 
 describe("the printed life-cycle cost line", () => {
   it("names years, tariff escalation and discount rate", () => {
-    expect(printed(0.025, 0.06)).toMatch(/; life-cycle cost \(present value\): [\d.]+ EUR over 12 years at a tariff escalation of \+2\.5 %\/year and a discount rate of 6 %\/year \(present-value method/);
-    expect(printed(-0.01, 0, 1)).toMatch(/ EUR over 1 year at a tariff escalation of −1 %\/year and a discount rate of 0 %\/year \(/);
+    expect(printed(0.025, 0.06)).toMatch(/; life-cycle cost \(present value\): [\d.]+ EUR over 12 years at a tariff escalation of \+2\.5 %\/year and a discount rate of 6 %\/year — ▲ priced as if the pump ran normally at 1 step outside its allowable flow range — below 50 % of BEP flow.*? is not in this cost \(present-value method/);
+    expect(printed(-0.01, 0, 1)).toMatch(/ EUR over 1 year at a tariff escalation of −1 %\/year and a discount rate of 0 %\/year — ▲ priced as if the pump ran normally at 1 step outside its allowable flow range — below 50 % of BEP flow.*? is not in this cost \(/);
   });
 });

@@ -50,4 +50,4 @@ export {
 export {
   stagedDutyCycleEnergy, PARALLEL_STAGING_RULE, type StagedDutyCycleInput,
 } from "./dutyStaging.ts";
-export { STEP_MIN_FLOW_FRACTION, STEP_POR_RULE, STEP_MIN_FLOW_RULE, STEP_POR_CODES, STEP_BELOW_MAKER_MIN_FLOW, STEP_MAKER_MIN_FLOW_RULE, type StepPorWarning } from "./stepPor.ts";
+export { STEP_MIN_FLOW_FRACTION, STEP_POR_RULE, STEP_MIN_FLOW_RULE, STEP_POR_CODES, STEP_BELOW_MAKER_MIN_FLOW, STEP_MAKER_MIN_FLOW_RULE, type StepPorWarning, type StepMakerMinWarning } from "./stepPor.ts";

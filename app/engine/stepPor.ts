@@ -61,7 +61,13 @@ export interface StepPorInput {
  * A step's note with the ratio it states: one pump's flow / its BEP flow at the speed it runs at (dimensionless); below 50 %,
  * the maker's minimum flow it was read beside, at the step's speed (m³/s; null: none recorded).
  */
-export type StepPorWarning = EngineWarning & { bepRatio: number; makerMinFlow?: number | null };
+export type StepPorWarning = EngineWarning & { bepRatio: number; makerMinFlow?: number | null; pumpFlow?: number; bepFlow?: number };
+/**
+ * The note at a step below the maker's minimum continuous flow, with its numbers: one pump's flow and the figure at the
+ * step's speed (m³/s). `pumpFlow` and `bepFlow` (one pump's, m³/s) are kept on both notes for the life-cycle cost's line
+ * (lib/projects/lcc-range-note.ts); absent in cycles frozen before.
+ */
+export type StepMakerMinWarning = EngineWarning & { pumpFlow: number; makerMinFlow: number };
 
 /** The codes of the notes against the BEP `stepPorWarning` gives (each with its `bepRatio`). */
 export const STEP_POR_CODES = ["step-outside-por", "step-below-min-flow"] as const;
@@ -76,7 +82,7 @@ export const STEP_BELOW_MAKER_MIN_FLOW = "step-below-maker-min-flow";
  * `markNeverRun`), as every other note at such a step (it gave none: two rules for one step).
  * @param input see {@link StepPorInput} (SI: m³/s, h; ratios dimensionless)
  */
-export function stepPorWarning(input: StepPorInput): StepPorWarning | EngineWarning | null {
+export function stepPorWarning(input: StepPorInput): StepPorWarning | StepMakerMinWarning | null {
   const { curve, flow, speed, hours, units } = input;
   if (!(hours >= 0) || !(flow > 0) || !(speed > 0)) return null;
   // One pump's flow and BEP flow at this speed: in parallel the curve's are the pumps' together (k × one's).
@@ -98,7 +104,7 @@ export function stepPorWarning(input: StepPorInput): StepPorWarning | EngineWarn
   const makerWords = (qm: string) => (input.vfd && speed !== 1 ? `${qm} at ${fmtPct(speed)} speed (${qt("flow", maker!)} at the curve's speed × ${fmtPct(speed)}, affinity laws: common practice, from memory — the maker's data may say otherwise)` : qm);
   if (makerAt !== null && share < makerAt * (1 - 1e-9)) {
     const [q, qm] = qtPair("flow", share, makerAt);
-    return { code: STEP_BELOW_MAKER_MIN_FLOW, parameter, message: `${head(q, "")}: below the maker's minimum continuous flow, ${makerWords(qm)} — ${STEP_MAKER_MIN_FLOW_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and bearing and seal damage — pumps staged, a smaller pump for these hours or a minimum-flow bypass (a note at the step; the verdict judges the duty against the same figure)` };
+    return { code: STEP_BELOW_MAKER_MIN_FLOW, parameter, pumpFlow: share, makerMinFlow: makerAt, message: `${head(q, "")}: below the maker's minimum continuous flow, ${makerWords(qm)} — ${STEP_MAKER_MIN_FLOW_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and bearing and seal damage — pumps staged, a smaller pump for these hours or a minimum-flow bypass (a note at the step; the verdict judges the duty against the same figure)` };
   }
   const bep = curve.bep;
   if (!bep) return null;
@@ -113,9 +119,9 @@ export function stepPorWarning(input: StepPorInput): StepPorWarning | EngineWarn
   if (low) {
     // The maker's own figure where it is recorded (the step at or above it: above), else that none is.
     const makerSaid = makerAt !== null ? `, though at or above the maker's minimum continuous flow, ${makerWords(qtPair("flow", makerAt, share)[0])},` : "; no maker's minimum flow is recorded for this curve (check the maker's data sheet);";
-    return { code: "step-below-min-flow", parameter, bepRatio: ratio, makerMinFlow: makerAt, message: `${at}: ${STEP_MIN_FLOW_RULE}${makerSaid} and outside the ${STEP_POR_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)` };
+    return { code: "step-below-min-flow", parameter, bepRatio: ratio, makerMinFlow: makerAt, pumpFlow: share, bepFlow, message: `${at}: ${STEP_MIN_FLOW_RULE}${makerSaid} and outside the ${STEP_POR_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and shorter bearing and seal life — a smaller pump, pumps staged, a drive or a minimum-flow bypass for these hours (a note, not a failure)` };
   }
   const side = ratio < POR_FRACTION.min ? "left of (below)" : "right of (above)";
   const why = ratio < POR_FRACTION.min ? "more vibration and radial load, shorter bearing and seal life the longer it runs there" : "more NPSH needed, more vibration and radial load, shorter bearing and seal life the longer it runs there";
-  return { code: "step-outside-por", parameter, bepRatio: ratio, message: `${at}: ${side} the ${STEP_POR_RULE}; ${why} (a note, not a failure)` };
+  return { code: "step-outside-por", parameter, bepRatio: ratio, pumpFlow: share, bepFlow, message: `${at}: ${side} the ${STEP_POR_RULE}; ${why} (a note, not a failure)` };
 }

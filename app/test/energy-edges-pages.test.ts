@@ -77,7 +77,7 @@ describe("a downhill step under system-curve control, and an implausible escalat
   test("the report: on screen, and in the printed notes at the step and the printed life-cycle cost line", () => {
     expect(page.report).toMatch(GRAVITY);
     expect(page.print).toMatch(new RegExp(`Step at 25 % flow, 3000 h: ${GRAVITY.source.replace("pump stopped: ", "pump stopped — ")}`));
-    expect(page.report).toMatch(new RegExp(`life-cycle cost \\(present value\\): [\\d.e+]+ [A-Z]+ over 50 years at a tariff escalation of \\+100 %\\/year and a discount rate of 5 %\\/year — ▲ ${ESCALATION.source}`));
+    expect(page.report).toMatch(new RegExp(`life-cycle cost \\(present value\\): [\\d.e+]+ [A-Z]+ over 50 years at a tariff escalation of \\+100 %\\/year and a discount rate of 5 %\\/year \\(purchase price not given: energy alone\\) — ▲ ${ESCALATION.source}`));
   });
   test("the CSV: the step's status in words, 0 kWh; the cycle complete; the warning as a figure", () => {
     const steps = page.csv.filter((r) => r[0] === "duty_cycle");

@@ -26,7 +26,7 @@ import { cycleColumns, cycleHoursText } from "~/components/CandidateEnergy";
 import { totalPowerText } from "~/components/power-text";
 import { moneyText } from "~/components/energy-numbers";
 import { adjustmentText } from "~/components/workbench";
-import { lccYears } from "~/lib/projects/energy";
+import { lccRangeNoteOf, lccYears } from "~/lib/projects/energy";
 import * as apiSystem from "~/routes/api.v1.systems.$id";
 import * as apiPreview from "~/routes/api.v1.systems.$id.preview";
 import * as selJson from "~/routes/selections.$id.export-json";
@@ -224,8 +224,12 @@ describe.each(["single", "parallel", "drive", "us"])("%s: the duty cycle and the
     expect(rows.get("lcc_total_present_value")?.[1]).toBe(g.currency);
     const shown = textOf(/data-testid="lcc-0"[^>]*>([\s\S]*?)<\/p>/.exec(g.pages.html)![1]);
     expect(shown).toContain(`Life-cycle cost over ${lccYears(lcc)}: ${moneyText(lcc.total, g.currency)} = purchase ${lcc.purchaseGiven ? moneyText(lcc.purchase, g.currency) : "not given (0)"}`);
-    expect(figureCell(g.pages.html, "Life-cycle cost (present value)")).toBe(`${moneyText(lcc.total, g.currency)} over ${lccYears(lcc)}`);
-    expect(figureCell(g.system, "Life-cycle cost (present value)")).toBe(`${moneyText(lcc.total, g.currency)} over ${lccYears(lcc)}`);
+    // Beside it, the priced steps outside the allowable flow range (lcc-range-note.ts), as the CSV's lcc_range_note says them.
+    const range = lccRangeNoteOf(g.f.energy);
+    const cell = `${moneyText(lcc.total, g.currency)} over ${lccYears(lcc)}${range ? ` — ▲ ${renderUnits(range, g.units)}` : ""}`;
+    expect(rows.get("lcc_range_note")?.[0] ?? "").toBe(range ? renderUnits(range, SI_UNITS) : "");
+    expect(figureCell(g.pages.html, "Life-cycle cost (present value)")).toBe(cell);
+    expect(figureCell(g.system, "Life-cycle cost (present value)")).toBe(cell);
   });
 });
 

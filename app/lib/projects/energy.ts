@@ -25,6 +25,7 @@ import {
 } from "~/engine";
 import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
+import { lccRangeNote } from "./lcc-range-note";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
@@ -148,6 +149,8 @@ export type CandidateEnergy = {
    * life-cycle cost is given. Absent in selections frozen before 2026-12-02.
    */
   costMissing?: string | null;
+  /** Beside the life-cycle cost: its priced steps outside the allowable flow range (lcc-range-note.ts); absent: frozen before. */
+  lccRangeNote?: string | null;
   assumptions: string[];
 };
 
@@ -196,6 +199,7 @@ export function candidateEnergy(
     purchasePrice,
     lcc: null,
     costMissing: null,
+    lccRangeNote: null,
     assumptions: [
       "Affinity laws for speed (Q ∝ N, H ∝ N², P ∝ N³; pump efficiency constant along the affinity parabola).",
       `Motor and drive losses at part load: ${PART_LOAD_SOURCE}.`,
@@ -247,6 +251,7 @@ export function candidateEnergy(
       if (out.costMissing === null) {
         out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
         out.lcc = lifeCycleCost({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
+        out.lccRangeNote = lccRangeNote(out.cycle);
       }
     } catch (e) {
       if (!(e instanceof EngineInputError)) throw e;
@@ -332,12 +337,19 @@ export const lccShown = (e: { lcc: LifeCycleResult | null; cycle: CandidateEnerg
   e?.lcc && !noStepCounted(e.cycle) ? e.lcc : null;
 
 /**
- * The life-cycle cost's period and the rates it rests on, as typed: "over 15 years at a tariff escalation of +3 %/year and
- * a discount rate of 5 %/year"; the period alone for a cost frozen before the rates were kept with it.
+ * The life-cycle cost's note on its priced steps outside the allowable flow range (lcc-range-note.ts), or null: as kept with
+ * the energy (flows as tokens, rendered with it), else worked out again from a cycle frozen before (its notes' ratios).
  */
+export const lccRangeNoteOf = (e: Pick<CandidateEnergy, "lccRangeNote" | "cycle"> & { lcc: LifeCycleResult | null } | null | undefined): string | null =>
+  !e || !lccShown(e) ? null : e.lccRangeNote !== undefined ? e.lccRangeNote : lccRangeNote(e.cycle);
+
 /** A life-cycle cost's period: "1 year", "15 years". */
 export const lccYears = (lcc: Pick<LifeCycleResult, "yearly">): string => `${lcc.yearly.length} year${lcc.yearly.length === 1 ? "" : "s"}`;
 
+/**
+ * The life-cycle cost's period and the rates it rests on, as typed: "over 15 years at a tariff escalation of +3 %/year and
+ * a discount rate of 5 %/year"; the period alone for a cost frozen before the rates were kept with it.
+ */
 export function lccRatesText(lcc: Pick<LifeCycleResult, "yearly" | "escalation" | "discountRate">): string {
   const years = `over ${lccYears(lcc)}`;
   if (lcc.escalation == null || lcc.discountRate == null) return years;

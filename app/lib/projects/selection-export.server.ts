@@ -2,7 +2,7 @@
 import type { FrozenSelection } from "./selections.server";
 import { selectionCurrency } from "./stored-selection";
 import { toCsv } from "../shared/csv";
-import { cycleWarnings, lccShown, missingSteps, missingStepsText, noStepCounted, pumpsRunningText, stepVerdict, stepWarnings } from "./energy";
+import { cycleWarnings, lccRangeNoteOf, lccShown, missingSteps, missingStepsText, noStepCounted, pumpsRunningText, stepVerdict, stepWarnings } from "./energy";
 import { csvFigureBasis, cycleFiguresBasis, powerColumn, pumpsBasis, STAGED_BASIS, type PumpsBasis } from "./power-basis";
 import { cautionFigures } from "./selection-cautions";
 import { verdictNpshNote } from "./verdict-npsh";
@@ -343,6 +343,8 @@ function energyFigures(f: FrozenSelection, add: (name: string, value: unknown, u
   const lcc = lccShown(e);
   const none = noStepCounted(c);
   add("lcc_total_present_value", none ? `not computed: ${none}` : (lcc?.total ?? null), currency);
+  // Beside the total: the priced steps outside the pump's allowable flow range, their flows and the rule (lcc-range-note.ts).
+  add("lcc_range_note", lccRangeNoteOf(e), "");
   add("lcc_energy_present_value", lcc?.energyPresentValue ?? null, currency);
   add("lcc_years", lcc ? lcc.yearly.length : null, "years");
   // The rates the life-cycle cost rests on (fractions per year; blank where frozen before they were kept with it).

@@ -120,6 +120,8 @@ const Energy = obj({
   purchasePrice: numOrNull,
   lcc: v.nullable(obj({ purchase: num, purchaseGiven: v.boolean(), yearly: v.array(obj({ year: num, energyCost: num, presentValue: num })), energyPresentValue: num, total: num, cumulative: v.array(num), source: str, escalation: v.optional(num), discountRate: v.optional(num), warnings: v.optional(v.array(obj({ message: str, parameter: v.nullish(str), code: v.nullish(str) }))) })),
   costMissing: v.nullish(str),
+  /** Beside the life-cycle cost: priced steps outside the allowable flow range (lcc-range-note.ts); absent in selections frozen before. */
+  lccRangeNote: v.nullish(str),
   assumptions: strings,
 });
 
@@ -158,7 +160,7 @@ const LABELS: Record<string, string> = {
   speedRatio: "speed", shaftPower: "shaft power", motorEfficiency: "motor efficiency", driveEfficiency: "drive efficiency", electricalPower: "electrical input", pumpsRunning: "pumps running", pumpShaftPower: "one pump's shaft power",
   minFlow: "maker's minimum flow", published: "as published", atPump: "one pump's minimum as run", dutyPerPump: "duty per running pump", running: "pumps running", below: "below it",
   judgedAt: "points NPSH is judged at", unjudged: "points NPSH could not judge", why: "why", pumpFlow: "one pump's flow", npshrPublished: "NPSHr as published",
-  from: "first flow", to: "last flow", single: "its one NPSHr", pumps: "pumps running together", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency",
+  from: "first flow", to: "last flow", single: "its one NPSHr", pumps: "pumps running together", requiredMargin: "NPSH margin wanted", npshAvailable: "NPSH available", npshRequired: "NPSH required", energyKWh: "energy", annualEnergyKWh: "energy per year", totalHours: "hours in total", complete: "complete", assumptions: "assumptions", currency: "currency", lccRangeNote: "life-cycle cost's note on steps outside the allowable flow range",
 };
 // An item replaces its list's name: so the list's name is in the item's words where it says more than "point".
 const ITEMS: Record<string, string> = {
