@@ -12,8 +12,9 @@ const NUM = String.raw`\d(?:[\d.,]*\d)?`;
 // The number starts a word (or follows Ø) and the unit ends one: "12 months", "DN80 mm", "mm" in a model name or "m" inside "max" do not count.
 const SI_WORDS = ["m³/h", "m³/s", "L/s", "L/min", "kPa", "kW", "mm", "m", "°C", "m/s", "kg/m³", "mm²/s", "m²/s", "mPa·s", "bar", "Pa"];
 // The one SI figure a US reader is shown: a trimmed impeller's whole mm in brackets right after its inches ("Ø6.65 in
-// [169 mm]"), where a text says the trim was rounded up to the next whole mm — the step a site sets (setting-step.ts,
-// DEVELOPERS.md decision "surfaces2"). Taken out before the scan; a mm figure anywhere else still counts.
+// [169 mm]"), where a text says the trim was rounded up to the next whole mm or gives the setting a site makes (the search
+// row's How, the field page's Impeller) — the step a site sets (setting-step.ts, DEVELOPERS.md decisions "surfaces2",
+// "npshtrim"). Taken out before the scan; a mm figure anywhere else still counts.
 const TRIM_STEP_MM = /(?<=Ø\d[\d.]* in) \[\d+(?:\.\d+)? mm\]/g;
 const esc = (s: string) => s.replace(/[.*+?^${}()|[\]\\/]/g, "\\$&");
 const UNIT_AFTER_NUMBER = (words: string[]) => new RegExp(String.raw`(?<![\p{L}\d](?<!Ø))${NUM}\s?(?:${words.map(esc).join("|")})(?![\p{L}\p{N}²³/])`, "gu");

@@ -1,17 +1,20 @@
 // Where NPSHr is read at the ends of its published column: the rounding allowance the workbench's curve (pumpCurve.ts
 // `npshrAt`) and the search's index (searchIndex.ts `evalNpshrPacked`) share, so both read NPSHr at the same flows.
 /**
- * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁹). NPSHr is read off the published curve
+ * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁸). NPSHr is read off the published curve
  * between its first and last published flow, never beyond (decision "npshone"); but a flow that reaches an end through
  * arithmetic — a band corner solved by a root finder, one pump's share of a total, a flow scaled by a speed ratio and back
  * — lands a rounding error either side of it (43.2000000001 m³/h at a curve ending at 43.2 m³/h), and a text showing at
  * most 9 significant digits then read "the NPSHr curve ends at 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h".
- * Rule: a flow within 1 part in 10⁹ of the NPSHr column's first or last published flow is at that flow and reads its
- * NPSHr; further out it has none. The same allowance the app takes elsewhere for a flow at a limit (the maker's minimum
- * flow, app/lib/projects/verdict-min-flow.ts), and the same in the search's index (searchIndex.ts `evalNpshrPacked`), so
- * the search and the workbench read NPSHr at the same flows.
+ * Rule: a flow within 1 part in 10⁸ of the NPSHr column's first or last published flow is at that flow and reads its
+ * NPSHr; further out it has none, and the words tell it from the end. The allowance follows the words' digits
+ * (engine quantityText.ts `MAX_SIGNIFICANT`, 9): one step of a value's 9th significant digit is at most 1 part in 10⁸ of
+ * it, so a flow further out than that prints apart from the end in every unit — at 1 part in 10⁹ (decision "npshtwo") a
+ * flow 1–1.2 parts in 10⁹ past 43.2 m³/h still read "43.2000000", and one up to 5 parts past a flow written with a
+ * leading 1. The same in the search's index (searchIndex.ts `evalNpshrPacked`), so the search and the workbench read
+ * NPSHr at the same flows. Tests: engine/npshr-end-rounding.test.ts, lib/projects/npshr-end-rounding.test.ts.
  */
-export const NPSHR_END_ROUNDING = 1e-9;
+export const NPSHR_END_ROUNDING = 1e-8;
 
 /**
  * The flow NPSHr is read at: `flow` itself, or the NPSHr column's first or last published flow where `flow` lies within

@@ -122,7 +122,7 @@ export function evalPacked(p: Packed, i: number, t: number): number | null {
 }
 
 /**
- * NPSHr of set i at a flow, m; null outside its NPSHr column or without one. A flow within 1 part in 10⁹ of the column's
+ * NPSHr of set i at a flow, m; null outside its NPSHr column or without one. A flow within 1 part in 10⁸ of the column's
  * first or last published flow reads the NPSHr there: the workbench's rounding allowance (pumpCurve.ts
  * npshrEnds.ts `NPSHR_END_ROUNDING`, pumpCurve.ts `npshrAt`), so the search leaves out, or keeps, a pump at the same flows the workbench judges.
  * @param p the packed NPSHr column (SI: knots m³/s, values m)

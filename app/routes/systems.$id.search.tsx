@@ -101,8 +101,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       operatingPoint: r.operatingPoint,
       perPump: r.perPump,
       // The setting the verdict judged, with the rule it was found by (the How cell's title).
-      // The rpm or Ø by the one rule the candidates table uses (setting-step.ts; a diameter as a token, in the reader's units).
-      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }))})` : ""}`,
+      // The rpm or Ø by the candidates table's rule (setting-step.ts; in the reader's units, a trim's whole mm beside inches).
+      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }), true)})` : ""}`,
       howRule: r.ratioNote,
       efficiency: r.efficiency,
       bepRatio: r.bepRatio,

@@ -10,7 +10,10 @@ import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { SelectionSummary, type SummarySelection } from "~/components/field/SelectionSummary";
 import { DEFAULT_ADJUSTMENT } from "~/lib/projects/hydraulics";
-import { SI_UNITS } from "~/lib/shared/units";
+import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
+import { eq } from "drizzle-orm";
+import { db } from "@db/client.server";
+import { users } from "@db/schema";
 
 afterAll(() => closeDb());
 
@@ -63,4 +66,21 @@ test("GET /field/selections/:id: the design speed and a trimmed impeller in the 
   const trim = await shown(trimmed, "Trimmed");
   expect(trim).toContain("trimmed to Ø182 mm");
   expect(trim).toContain("2900 rpm"); // the speed as published
+});
+
+// A trim is set in whole mm for every reader (setting-step.ts): the report's Adjustment writes it "Ø7.17 in [182 mm]" to a US
+// reader, the whole mm a site turns the impeller to beside the inches; the field page, where the contractor checks the pump
+// against the report, wrote "trimmed to Ø7.17 in" alone. Check values: the fixture's made-up 200 mm impeller × 0.91 = 182 mm;
+// 182 mm / 25.4 mm per inch = 7.165 in (the inch is 25.4 mm exactly, NIST SP 811).
+test("GET /field/selections/:id, a US reader: the trimmed impeller in inches with the whole mm it is set in, as the report", async () => {
+  const m = await makeMember("engineer");
+  await db().update(users).set({ unitSystem: "US" }).where(eq(users.id, m.userId));
+  const t = frozenFixture();
+  const trimmed = { ...t, adjustment: { ...t.adjustment, method: "trim" as const }, pump: { ...t.pump, impellerDiameter: 0.2 }, result: { ...t.result, ratio: 0.91 } };
+  const { selectionId } = await storeSelection(m.workspaceId, m.userId, trimmed, "Trimmed US");
+  const r = await call(fieldForm.loader as never, { path: `/field/selections/${selectionId}`, params: { id: String(selectionId) }, cookie: m.cookie });
+  expect(r.status).toBe(200);
+  const selection = (r.body as { selection: SummarySelection }).selection;
+  const html = renderToString(createElement(SelectionSummary, { selection, unitSystem: US_UNITS })).replace(/<!-- -->/g, "");
+  expect(/data-testid="design-impeller">([^<]*)</.exec(html)?.[1]).toBe("trimmed to Ø7.17 in [182 mm]");
 });

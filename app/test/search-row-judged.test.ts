@@ -7,7 +7,6 @@
 // the identity the rows must keep) and the booster fixture's duty (app/lib/projects/test-kit.ts: 40 m³/h at 38 m
 // typed, 32.6 m needed by the system at most lift, aged pipe).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet } from "~/lib/libraries";
 import { addCandidate, catalogueOf, createSystem, searchForSystem, systemWorkbench, type SearchFilters } from "~/lib/projects";
@@ -17,7 +16,10 @@ import { boosterInput, demoProjectFixture, M3H } from "~/lib/projects/test-kit";
 import { inSI } from "~/engine/quantityText";
 import * as apiSearch from "~/routes/api.v1.systems.$id.search";
 import * as searchPage from "~/routes/systems.$id.search";
-import { call } from "./harness";
+import { call, makeMember } from "./harness";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { users } from "@db/schema";
 import { loadedPage } from "./render-page";
 
 afterAll(() => closeDb());
@@ -132,5 +134,20 @@ describe("the read API and the page carry the same", () => {
     expect(cell(`search-how-${row.curveSetId}`)).toBe(`slow down to 57.9 % (${Math.round(row.speed!)} rpm)`);
     expect(cell(`search-power-${row.curveSetId}`)).toBe(`${(row.shaftPower! / 1000).toFixed(2)} kW`);
     expect(cell("search-figures-rule")).toMatch(/at the band's demanding edge \(32\.6 m, most lift, aged pipe\), and the figures at its operating point, .* The rank is the search's score at the typed duty \(40\.0 m³\/h at 38\.0 m\)/);
+  });
+
+  // A trim is set in whole mm for every reader (setting-step.ts): the candidates table's Adjustment and the How cell's own
+  // rule (its title, "set and judged at Ø6.77 in [172 mm]: rounded up to the next whole mm") carry the whole mm beside
+  // inches; the cell itself read "trim to 88.2 % (Ø6.77 in)". Check values: Slipway 125 Ø195 trimmed to 172 mm (the row's
+  // diameter, above); 172 mm / 25.4 mm per inch = 6.772 in (the inch is 25.4 mm exactly, NIST SP 811); 172/195 = 88.2 %.
+  test("page, a US reader: a trimmed row's How cell reads its inches with the whole mm it is set in, as its rule says", async () => {
+    const us = await makeMember("admin", fx.m.workspaceId);
+    await db().update(users).set({ unitSystem: "US" }).where(eq(users.id, us.userId));
+    const { html } = await loadedPage(us, searchPage, "/systems/:id/search", `/systems/${typed38}/search?beyond=1`, { id: String(typed38) });
+    const row = find((await search(typed38)).results, "TFS Slipway 125", 195, "trim")!;
+    expect(row.diameter! * 1000).toBeCloseTo(172, 9); // control: the whole mm the verdict judged
+    const td = new RegExp(`<td title="([^"]*)" data-testid="search-how-${row.curveSetId}"[^>]*>(.*?)<`, "s").exec(html);
+    expect(td?.[2]).toBe("trim to 88.2 % (Ø6.77 in [172 mm])");
+    expect(td?.[1]).toContain("set and judged at Ø6.77 in [172 mm]: rounded up to the next whole mm"); // the rule beside it says so
   });
 });

@@ -14,7 +14,7 @@ export type SummarySelection = {
   designSpeed: number | null;
   /** The speed as set, in the report's words ("1645 rpm"; "1644.3 rpm" off the whole-rpm step); null when the curve names none. */
   designSpeedText: string | null;
-  /** "trimmed to Ø182 mm" when the impeller is trimmed, else null. */
+  /** "trimmed to Ø182 mm" ("trimmed to Ø7.17 in [182 mm]" in inches: the whole mm it is set in) when the impeller is trimmed, else null. */
   impeller: string | null;
   duty: { flow: number; head: number } | null | undefined;
   arrangement: string;

@@ -48,8 +48,12 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
       pump: frozen.pump.label,
       designSpeed: frozen.pump.speed != null ? frozen.pump.speed * speedRatio : null,
       designSpeedText: frozen.pump.speed != null ? settingText("speed", speedRatio, published) : null,
-      /** The trimmed impeller as set (a diameter token, in the reader's units once rendered); null when not trimmed. */
-      impeller: frozen.adjustment.method === "trim" ? `trimmed to ${settingToken("trim", trimRatio, published)}${published.impellerDiameter ? "" : " of the curve's impeller"}` : null,
+      /**
+       * The trimmed impeller as set (a diameter token, in the reader's units once rendered), as the report's Adjustment writes
+       * it: a trim is set in whole mm for every reader, so in inches the whole mm a site turns it to is beside it, "Ø7.44 in
+       * [189 mm]" (setting-step.ts `settingToken`, stepToo); null when not trimmed.
+       */
+      impeller: frozen.adjustment.method === "trim" ? `trimmed to ${settingToken("trim", trimRatio, published, true)}${published.impellerDiameter ? "" : " of the curve's impeller"}` : null,
       duty: frozen.system.input.duty,
       arrangement: frozen.adjustment.arrangement,
       dutyPumps: frozen.adjustment.dutyPumps,

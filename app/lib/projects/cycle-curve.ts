@@ -7,7 +7,7 @@
 // carries the BEP the candidate's figures name instead (`figures.bepFlow`, `bepHead`: one pump's, on its curve as set;
 // none where they name none), moved with the curve: flow × pumps in parallel, head × pumps in series, and by the affinity
 // laws (Q ∝ N, H ∝ N²) with the speed (common practice, as engine stepPor.ts moves it to a step's speed).
-import { createPumpCurve, efficiencyAt, POR_FRACTION, scaleBySpeed, type PumpCurve } from "~/engine";
+import { createPumpCurve, efficiencyAt, monotoneCubic, POR_FRACTION, scaleBySpeed, type PumpCurve } from "~/engine";
 import type { NpshrPublished } from "./npshr-reach";
 
 type CurvePoint = { flow: number; head: number; efficiency: number | null; power: number | null; npshr: number | null };
@@ -60,7 +60,24 @@ export function npshrOnCycle(c: CycleCurveSource & { result: { npsh?: { npshrPub
   const pub = c.result.npsh?.npshrPublished;
   if (pub == null) return pub;
   const s = cycleSpeed(c, undoSpeed);
-  return { ...pub, from: pub.from * s, to: pub.to * s, single: pub.single == null ? null : pub.single * s * s };
+  const column = pub.column?.map((p) => ({ flow: p.flow * s, npshr: p.npshr * s * s }));
+  return { ...pub, from: pub.from * s, to: pub.to * s, single: pub.single == null ? null : pub.single * s * s, ...(column ? { column } : {}) };
+}
+
+/**
+ * One pump's cycle curve with its NPSHr read off the published points (`npshrOnCycle`'s column, at the cycle's speed)
+ * rather than off the result's 41 samples rebuilt into a curve: a monotone cubic through samples of a monotone cubic is
+ * not the published curve, and under a drive a staged step's NPSHr, s² · NPSHr(share / s) (affinity laws: Q ∝ N, NPSHr ∝
+ * N², common practice), read off the samples printed "NPSHr 0.8230 m" and "= 0.9997" where the published points give
+ * 0.8239 m and 0.9990. Fewer than two published points: no NPSHr curve (decision "npshone"). A result from before the
+ * column was kept (undefined) keeps the rebuilt curve's.
+ * @param curve one pump's curve the cycle runs on (SI)
+ * @param pub what one pump's curve publishes at the cycle's speed (`npshrOnCycle`)
+ */
+export function withPublishedNpshr(curve: PumpCurve, pub: NpshrPublished | null | undefined): PumpCurve {
+  if (pub === undefined || (pub !== null && !pub.column)) return curve;
+  const col = pub?.column ?? [];
+  return { ...curve, npshr: col.length >= 2 ? monotoneCubic(col.map((p) => p.flow), col.map((p) => p.npshr)) : null };
 }
 
 export function cycleCurves(c: CycleCurveSource, density: number, undoSpeed: boolean): { curve: PumpCurve; one: PumpCurve | null } {

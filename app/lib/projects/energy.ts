@@ -31,7 +31,7 @@ import { neverRunMarked } from "~/engine/cycleTotals";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import { minFlowOnCycle } from "./verdict-min-flow";
-import { cycleCurves, npshrOnCycle } from "./cycle-curve";
+import { cycleCurves, npshrOnCycle, withPublishedNpshr } from "./cycle-curve";
 import type { NpshrPublished } from "./npshr-reach";
 import type { SystemInput } from "./system-input";
 
@@ -235,8 +235,11 @@ export function candidateEnergy(
         out.assumptions.push(`${PARALLEL_STAGING_RULE}.`);
         out.cycle = stagedDutyCycleEnergy({ ...common, pumpCurve: one!, dutyPumps: pumps, motor: { rating, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor } });
         // One pump alone at the larger share Q/k needs more NPSH: judged at each step with fewer pumps running.
-        if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null)
-          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: one!, prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin, npshrPublished: npshrOnCycle({ adjustment: c.adjustment, result: r }, mode.vfd) }));
+        if (input.suctionSurfacePressure != null && input.suctionStaticHead != null && input.npshMargin != null) {
+          // One pump's NPSHr off the published points at the cycle's speed, not off the rebuilt samples (cycle-curve.ts).
+          const published = npshrOnCycle({ adjustment: c.adjustment, result: r }, mode.vfd);
+          out.cycle.warnings.push(...stagedNpshWarnings({ cycle: out.cycle, pumpCurve: withPublishedNpshr(one!, published), prepared, suction: { surfacePressure: input.suctionSurfacePressure, staticHead: input.suctionStaticHead }, requiredMargin: input.npshMargin, npshrPublished: published }));
+        }
       } else out.cycle = dutyCycleEnergy({ ...common, curve, motor: { rating: rating * pumps, efficiency: etaM, serviceFactor: c.adjustment.serviceFactor, units: pumps }, arrangement: c.adjustment.arrangement === "series" && pumps > 1 ? "series" : undefined });
       const visc = viscousNote(input, r, c.adjustment.method, out.cycle);
       if (visc) out.assumptions.push(visc);

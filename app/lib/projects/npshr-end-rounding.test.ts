@@ -1,5 +1,7 @@
 // A band corner a rounding error past the NPSHr curve's last published flow (or before its first) is judged there, with
-// the NPSHr at that end (engine npshrEnds.ts `NPSHR_END_ROUNDING`: a flow within 1 part in 10⁹ of an end is at it).
+// the NPSHr at that end (engine npshrEnds.ts `NPSHR_END_ROUNDING`: a flow within 1 part in 10⁸ of an end is at it; it was
+// 1 part in 10⁹, and a corner 5 parts in 10⁹ past 43.2 m³/h read "runs past it at 43.2000000 m³/h": the words' 9 significant
+// digits cannot tell it from the end, so the allowance now follows them).
 // Before, such a corner was not judged and the verdict's line read "but NPSH not checked: the NPSHr curve ends at
 // 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h (least lift, new pipe)", two flows a text cannot tell apart.
 // 1 part in 10⁶ past the end stays unjudged, its flow read apart (43.20004 m³/h). The corner is placed by bisecting the
@@ -59,12 +61,27 @@ describe("a band corner a rounding error past the NPSHr curve's last flow (43.2 
     expect(far.npsh.status).toBe("unknown");
     expect(note(far)).toMatch(/^but NPSH not checked: the NPSHr curve ends at 43\.2 m³\/h, and the pump runs past it at 43\.20004\d* m³\/h \(least lift, new pipe\); where judged, /);
   });
-  it("the search reads the same NPSHr at the corner's flow as the workbench: 2.5 m at end × (1 + 1e-12), none at end × (1 + 1e-6)", () => {
+  // Either side of the allowance's edge, 1 part in 10⁸: 5e-9 past is judged (old code: "… runs past it at 43.2000000 m³/h"),
+  // 2e-8 past is not, its flow printed apart from the end (43.2 × (1 + 2e-8) = 43.200000864 m³/h, arithmetic: "43.200001").
+  const inside = placed(upTo(END), "staticLow", "least lift, new pipe", END * (1 + 5e-9), 1, 0, 10);
+  const outside = placed(upTo(END), "staticLow", "least lift, new pipe", END * (1 + 2e-8), 1, 0, 10);
+  it("end × (1 + 5e-9): judged with the end's NPSHr, 2.5 m (old code: 'the NPSHr curve ends at 43.2 m³/h, and the pump runs past it at 43.2000000 m³/h')", () => {
+    expect(corner(inside, "least lift, new pipe").pumpFlow! / END - 1).toBeCloseTo(5e-9, 15); // control: placed there
+    expect(corner(inside, "least lift, new pipe").required).toBe(2.5);
+    expect(inside.npsh.status).toBe("ok");
+    expect(verdictNpshNote(inside.verdict, inside.npsh)).toBeNull();
+  });
+  it("end × (1 + 2e-8): not judged, and the words read the flow apart from the end: 43.200001 m³/h beside 43.2 m³/h", () => {
+    expect(corner(outside, "least lift, new pipe").pumpFlow! / END - 1).toBeCloseTo(2e-8, 15); // control: placed there
+    expect(outside.npsh.status).toBe("unknown");
+    expect(note(outside)).toMatch(/^but NPSH not checked: the NPSHr curve ends at 43\.2 m³\/h, and the pump runs past it at 43\.200001 m³\/h \(least lift, new pipe\); where judged, /);
+  });
+  it("the search reads the same NPSHr at the corner's flow as the workbench: 2.5 m at end × (1 + 1e-12) and (1 + 5e-9), none at (1 + 2e-8) and (1 + 1e-6)", () => {
     // The same points as the engine takes them (no blank columns), as the search's index is built from a curve set.
     const points = pump(upTo(END)).points.map(({ power: _, npshr, ...p }) => ({ ...p, ...(npshr != null ? { npshr } : {}) }));
     const curve = createPumpCurve({ points });
     const index = prepareSearchIndex([{ id: "1", curve: { points } }]);
-    for (const [r, want] of [[near, 2.5], [far, null]] as const) {
+    for (const [r, want] of [[near, 2.5], [inside, 2.5], [outside, null], [far, null]] as const) {
       const q = corner(r, "least lift, new pipe").pumpFlow!;
       const found = searchDuty(index, { flow: q, head: headAt(curve, q)! }, { npshAvailable: 10, methods: ["direct"] }).candidates[0];
       expect([found.npshr, npshrAt(curve, q), corner(r, "least lift, new pipe").required]).toEqual([want, want, want]);

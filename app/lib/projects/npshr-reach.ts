@@ -20,9 +20,11 @@ import { qt, qtExact, qtLimit } from "~/engine/quantityText";
 /**
  * The NPSHr one pump's curve publishes, as run: its first and last flow with an NPSHr (m³/s; the same with one point), how
  * many points carry one (count), that NPSHr with one point (m; null with more), and how many pumps run together (count;
- * 1 alone, the duty pumps in parallel or series: the words then read "each pump runs at").
+ * 1 alone, the duty pumps in parallel or series: the words then read "each pump runs at"). `column`: the published points
+ * themselves as run (flow m³/s, NPSHr m: moved by the speed or trim as the judgement's curve), which a staged duty-cycle
+ * step reads its NPSHr from (cycle-curve.ts `withPublishedNpshr`); absent in results from before it was kept.
  */
-export type NpshrPublished = { from: number; to: number; points: number; single: number | null; pumps: number };
+export type NpshrPublished = { from: number; to: number; points: number; single: number | null; pumps: number; column?: { flow: number; npshr: number }[] };
 
 /** A point NPSH is judged at, as the words need it (candidate-judgement.ts `NpshPoint`): its flow, m³/s, and one pump's there. */
 type At = { at: string; flow: number | null; pumpFlow?: number | null };
@@ -36,7 +38,7 @@ export function npshrPublished(points: readonly { flow: number; npshr?: number |
   const withNpshr = points.filter((p) => p.npshr != null);
   if (!withNpshr.length) return null;
   const first = withNpshr[0], last = withNpshr[withNpshr.length - 1];
-  return { from: first.flow, to: last.flow, points: withNpshr.length, single: withNpshr.length === 1 ? first.npshr! : null, pumps };
+  return { from: first.flow, to: last.flow, points: withNpshr.length, single: withNpshr.length === 1 ? first.npshr! : null, pumps, column: withNpshr.map((p) => ({ flow: p.flow, npshr: p.npshr! })) };
 }
 
 /** One pump's flow at a point, m³/s (the point's flow but for pumps in parallel; selections frozen before kept only the flow). */

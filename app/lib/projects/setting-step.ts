@@ -6,11 +6,12 @@
 // setting shown is the setting judged. A value off its step (a ratio typed as a percentage, a selection frozen before
 // this rule) is shown with one more decimal, never rounded to a step it is not on. Pure: hydraulics and the pages.
 // In US units: the trim is still set in whole mm (one rule for every reader: a selection's setting and verdict never
-// change with the units it is read in), so every text that says it was rounded to "the next whole mm" writes the
-// diameter in the reader's unit with the whole mm beside it — "Ø6.65 in [169 mm], the next whole mm up" — through one
-// token (`qtAlsoIn`) that every surface renders alike: the candidates table's Adjustment and Notes, the report, the
-// oversized verdict's savings, CSV and JSON (SI: "Ø169 mm" alone) and the API (in the caller's units). A label that
-// names no rounding (the chart's, the search row's) reads the reader's unit alone.
+// change with the units it is read in), so every text that says it was rounded to "the next whole mm", and every place
+// that gives the setting a site turns the impeller to, writes the diameter in the reader's unit with the whole mm beside
+// it — "Ø6.65 in [169 mm], the next whole mm up" — through one token (`qtAlsoIn`) that every surface renders alike: the
+// candidates table's Adjustment and Notes, the report, the oversized verdict's savings, the search row's How (whose rule,
+// its title, says the rounding), the field page's Impeller (the report's Adjustment, read on site), CSV and JSON (SI:
+// "Ø169 mm" alone) and the API (in the caller's units). A chart label names neither and reads the reader's unit alone.
 
 import { qtAlsoIn, qtExact } from "~/engine/quantityText";
 
@@ -80,7 +81,8 @@ export function settingText(method: Method, ratio: number, pub: Published): stri
  * @param method speed or trim
  * @param ratio the ratio (dimensionless)
  * @param pub the published curve's speed (rpm) and impeller (m)
- * @param stepToo for a text that names the whole-mm step: the whole mm beside a diameter read in another unit ("Ø7.36 in [187 mm]")
+ * @param stepToo for a text that names the whole-mm step or gives the setting a site makes (the search row's How, the field
+ *   page's Impeller): the whole mm beside a diameter read in another unit ("Ø7.36 in [187 mm]")
  */
 export function settingToken(method: Method, ratio: number, pub: Published, stepToo = false): string {
   const { base, step, kind } = stepOf(method, pub);

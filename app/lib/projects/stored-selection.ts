@@ -95,7 +95,7 @@ const Result = obj({
     /** The points the rule could not judge, with why (the report, the CSV's npsh_not_judged_at): absent in selections frozen before it was kept. */
     unjudged: v.optional(v.array(obj({ at: str, why: str }))),
     /** Where one pump's NPSHr is published (npshr-reach.ts): null none, absent in selections frozen before it was kept. */
-    npshrPublished: v.nullish(obj({ from: num, to: num, points: num, single: numOrNull, pumps: num })),
+    npshrPublished: v.nullish(obj({ from: num, to: num, points: num, single: numOrNull, pumps: num, column: v.optional(v.array(obj({ flow: num, npshr: num }))) })),
   })),
   /** The maker's minimum flow against the duty (verdict-min-flow.ts): null without a figure, absent in selections frozen before it was kept. */
   minFlow: v.nullish(obj({ published: num, method: v.picklist(["none", "speed", "trim"]), ratio: num, atPump: num, dutyFlow: numOrNull, running: num, dutyPerPump: numOrNull, below: v.boolean() })),

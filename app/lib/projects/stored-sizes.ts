@@ -5,14 +5,10 @@
 // since the page was loaded — read the stored run K of another run, and refused the unchanged size ("Pick a size from this
 // pipe table."). Each stored run gives its size to one posted run at most, so an unlisted size is never added to a system
 // nor spread to a second run. Pure (the server and the browser's live reading).
-import { PIPE_TABLES } from "~/engine";
-import { storedSizeNote, type PipeRunInput } from "./system-input";
+import { sizeListed, storedSizeNote, type PipeRunInput } from "./system-input";
 import { SHOWN_PRECISION } from "./run-ranges";
 
 type FormLike = { get(name: string): FormDataEntryValue | null };
-
-/** Whether the catalogue lists this table and size now. */
-const listed = (table: string, nominal: string) => !!PIPE_TABLES.find((t) => t.id === table)?.sizes.some((s) => s.nominal === nominal);
 
 /**
  * The stored run each posted run on an unlisted table and size keeps them from, by form position (`run.N.`): first each at
@@ -26,7 +22,7 @@ export function storedSizesKept(f: FormLike, runCount: number, stored: readonly 
     const p = `run.${i}.`;
     const table = (f.get(`${p}table`) ?? "").toString();
     const nominal = (f.get(`${p}nominal`) ?? "").toString();
-    if (f.get(`${p}remove`) == null && table && nominal && !listed(table, nominal)) posted.push({ at: i, table, nominal });
+    if (f.get(`${p}remove`) == null && table && nominal && !sizeListed(table, nominal)) posted.push({ at: i, table, nominal });
   }
   const holds = (k: number, p: (typeof posted)[number]) => !!stored[k] && stored[k].pipeTable === p.table && stored[k].nominal === p.nominal && !!storedSizeNote(stored[k]);
   const given = new Set<number>();

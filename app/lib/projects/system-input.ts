@@ -295,9 +295,11 @@ const runLabel = (r: PipeRunInput) => r.name || `A ${r.side} run`;
  */
 export function storedSizeNote(r: PipeRunInput): string | null {
   if (!r.pipeTable || !r.nominal) return null;
-  const listed = PIPE_TABLES.find((t) => t.id === r.pipeTable)?.sizes.some((x) => x.nominal === r.nominal);
-  return listed ? null : sizeNotInCatalogue(r, runLabel(r));
+  return sizeListed(r.pipeTable, r.nominal) ? null : sizeNotInCatalogue(r, runLabel(r));
 }
+
+/** Whether the catalogue lists this pipe table and nominal size now (the one check: `storedSizeNote`, stored-sizes.ts). */
+export const sizeListed = (table: string, nominal: string): boolean => !!PIPE_TABLES.find((t) => t.id === table)?.sizes.some((s) => s.nominal === nominal);
 
 /**
  * What the runs as stored say beyond the engine's own warnings, each naming the run and its numbers: a run whose
