@@ -115,6 +115,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
       rowProblems.push({ row: lr.line, column, reason, severity: "error", code });
+    if (lr.shifted) bad(null, "extra-cells", lr.shifted); // numbers beyond the header: its cells moved (shifted-cells.ts)
 
     const num = (field: NumericField, required: boolean): number | null | undefined => {
       const cell: Cell | undefined = lr.cells[field];
