@@ -2,10 +2,11 @@ import { Form } from "react-router";
 import { shownFigure } from "~/lib/libraries/min-flow-form";
 import type { MinFlowList } from "~/lib/libraries/upload-min-flows";
 import { fmtFlow, labelOf, type UnitChoice } from "~/lib/shared/units";
+import { Pager } from "./Pager";
 
 /**
- * The maker's minimum continuous flow of each curve of an upload (the first MIN_FLOW_CURVES_SHOWN), set or corrected here
- * (a plain form: works without JavaScript). The server writes the changed figures on every row of their curve — in the
+ * The maker's minimum continuous flow of each curve of an upload, MIN_FLOW_CURVES_SHOWN a page (`?minflows=N`, the form
+ * posts to the page it is on), set or corrected here (a plain form: works without JavaScript). The server writes the changed figures on every row of their curve — in the
  * file's minimum-flow column, or in a column it adds — and keeps the result as a corrected copy beside the original,
  * which it then checks again (lib/libraries/min-flow-form.ts). `mapping`: the mapping the list was made with (JSON).
  */
@@ -21,7 +22,7 @@ export function MinFlowEditor({ list, units, mapping, encoding }: { list: MinFlo
         The maker's minimum continuous flow of each curve, as its data sheet gives it: an engineer's pump whose duty puts it below this
         figure fails its verdict. It must lie above zero and below the curve's last published flow; blank means none is recorded.{" "}
         {list.column ? `Read from the column “${list.column.header}”.` : "The file has no such column: saving adds one."}{" "}
-        {list.total > list.rows.length ? `Showing the first ${list.rows.length} of ${list.total} curves: write the others in the file's column.` : ""}
+        {list.pages > 1 ? `Showing curves ${list.rows[0].n}–${list.rows[list.rows.length - 1].n} of ${list.total}: the others are on the other pages; a save keeps the figures of this page.` : ""}
       </p>
       {list.wide ? (
         <p className="text-sm text-duty-ink">This file has column blocks: each curve's figure is written in its block's column in the file (“Qmin 250mm”), shown here as read.</p>
@@ -64,6 +65,7 @@ export function MinFlowEditor({ list, units, mapping, encoding }: { list: MinFlo
             </tbody>
           </table>
         </div>
+        <Pager paging={list} label="Pages of curves" param="minflows" />
         {list.wide ? null : (
           <button className="btn" name="save" value="1">
             Save the figures as a corrected copy and check again

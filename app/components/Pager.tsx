@@ -3,10 +3,11 @@
 import { Link, useLocation } from "react-router";
 import { pageHref } from "~/lib/shared/paging";
 
-export function Pager({ paging, label }: { paging: { page: number; pages: number }; label: string }) {
+/** `param`: the query key of the page (default "page"; a page with two lists gives one its own). */
+export function Pager({ paging, label, param }: { paging: { page: number; pages: number }; label: string; param?: string }) {
   const { search } = useLocation();
   if (paging.pages <= 1) return null;
-  const href = (page: number) => pageHref(search, page);
+  const href = (page: number) => pageHref(search, page, param);
   return (
     <nav aria-label={label} className="mt-3 flex items-center gap-3 text-sm">
       {paging.page > 1 ? <Link to={href(paging.page - 1)} rel="prev">← Previous</Link> : null}

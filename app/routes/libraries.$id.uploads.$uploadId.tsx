@@ -27,9 +27,12 @@ import { renderDeep, type UnitChoice } from "~/lib/shared/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Map and check an upload · Dutymark" }];
 
+/** The page of the maker's minimum flow list asked in the query (`?minflows=2`: curves 51–100; the first when none; past the last, the last). */
+const minFlowPage = (request: Request) => readQuery(request.url, v.object({ minflows: QueryId })).minflows;
+
 /** The analysis runs in a worker thread and is kept per upload (app/lib/libraries/upload-analysis.server.ts). */
-const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null }; m: { user: { units: UnitChoice } } }, mapping?: unknown) =>
-  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping)
+const analysis = (c: { upload: { id: number; sha256: string }; lib: { mappingJson: string | null }; m: { user: { units: UnitChoice } }; minFlowPage: number | null }, mapping?: unknown) =>
+  summariseUpload(c.upload, "stored", c.lib.mappingJson, mapping, c.minFlowPage)
     .then((s) => renderDeep(s, c.m.user.units)) // curve names carry the impeller as a quantity token
     .catch((e) => {
       if (e instanceof AnalysisFailed) throw data(`This file cannot be analysed with that mapping: ${e.message}`, { status: 422 });
@@ -42,7 +45,7 @@ async function context(request: Request, params: { id: string; uploadId: string 
   const libraryId = readId(params.id);
   const uploadId = readId(params.uploadId);
   const up = await getUploadMeta(viewer, libraryId, uploadId);
-  return { m, viewer, libraryId, uploadId, ...up };
+  return { m, viewer, libraryId, uploadId, minFlowPage: minFlowPage(request), ...up };
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -109,7 +112,7 @@ async function saveMinFlows(c: Awaited<ReturnType<typeof context>>, form: FormDa
   try {
     const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, r.edits, encodingFromForm(form), r.extraColumns);
     if (id === null) return { error: "No figure was changed; nothing was saved." };
-    throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
+    throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}${s.minFlows.page > 1 ? `&minflows=${s.minFlows.page}` : ""}`);
   } catch (e) {
     if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 });
     throw e;

@@ -53,6 +53,24 @@ export function decodeBytes(bytes: Uint8Array, chosen?: Encoding): Decoded {
   }
 }
 
+/**
+ * True when bytes without a byte-order mark look like UTF-16 text (LE or BE): of the first 8 KiB's byte pairs, at least 90 %
+ * hold a NUL in one place (the high byte of a Latin character) and none in the other. Such a file is refused as binary
+ * (its NULs), and the refusal says how to save it instead.
+ */
+export function looksUtf16WithoutBom(bytes: Uint8Array): boolean {
+  if (bomOf(bytes)) return false;
+  const n = Math.min(bytes.length, 8192) >> 1;
+  if (n < 2) return false;
+  let even = 0;
+  let odd = 0;
+  for (let i = 0; i < n; i++) {
+    if (bytes[2 * i] === 0) even++;
+    if (bytes[2 * i + 1] === 0) odd++;
+  }
+  return (odd >= 0.9 * n && even === 0) || (even >= 0.9 * n && odd === 0);
+}
+
 /** True when the bytes look binary (NUL bytes) and are not UTF-16 with a BOM. */
 export function looksBinary(bytes: Uint8Array): boolean {
   const b = bomOf(bytes);

@@ -13,6 +13,7 @@ import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
 import { efficiencyPlausible, NPSHR_SMALL, risesTooMuch } from "./point-rules";
+import { FRACTION_BELOW } from "./efficiency-fraction";
 import { looksLikeRating } from "./constant-power";
 import { textCell } from "./text-cells";
 import { minFlowFits } from "./min-flow";
@@ -249,6 +250,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     // the engine's point rules (point-rules.ts): a zero power or NPSHr, or a zero efficiency at flow, needs a message
     if (pow === 0 || num[6] === 0 || (eff === 0 && flow > 0)) return null;
     if (num[6] < NPSHR_SMALL) return null; // an NPSHr below 0.1 m: a warning (npshr-small); NaN (absent) passes
+    if (eff > 0 && eff < FRACTION_BELOW) return null; // an efficiency below 1 %: perhaps a fraction among percents (efficiency-fraction.ts)
     if (curPoints === 0) {
       if (!(head > 0)) return null;
       firstHead = lowest = head;

@@ -122,7 +122,7 @@ export { isUnitCell, unitsRowOf, type UnitsRow } from "./units-row";
 export { parseNumber } from "./numbers";
 export { undefused, textCell } from "./text-cells";
 export { readTitle, withTitleDefaults, type TitleInfo } from "./title";
-export { decodeBytes, encodingNamed, looksBinary, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
+export { decodeBytes, encodingNamed, looksBinary, looksUtf16WithoutBom, ENCODINGS, ENCODING_LABEL, type Encoding, type Decoded } from "./decode";
 export { curveName, curveNameOfKey } from "./names";
 export { splittingBlanks, type SplittingBlank, type KeyColumn } from "./blank-keys";
 export type { Problem, ProblemCode, Severity } from "./types";

@@ -3,6 +3,7 @@
  * A Mapping is a plain JSON object: it is saved per library and offered again, and comes back
  * from a form, where MappingSchema validates it. Pure: no Node or DOM APIs.
  */
+import { shiftedRowReason } from "./shifted-cells";
 import * as v from "valibot";
 import { parseNumber } from "./numbers";
 import type { SourceRow } from "./parse";
@@ -220,6 +221,8 @@ export interface LongRow {
   /** 0 for the long layout; the block's position for the wide layout. */
   block: number;
   cells: Partial<Record<KeyField, Cell>>;
+  /** Numbers beyond the header's columns: why the row's cells cannot be read by their columns (shifted-cells.ts); validate.ts refuses the point. */
+  shifted?: string;
 }
 
 interface BlockPlan {
@@ -323,7 +326,8 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
 
   for (const row of rows) {
     const extra = row.cells.slice(headers.length).filter((x) => x.trim() !== "").length;
-    if (extra)
+    const shifted = extra ? shiftedRowReason(row.cells, headers.length) : null;
+    if (extra && !shifted)
       problems.push({ row: row.line, column: null, reason: `row has ${extra} filled cell(s) beyond the ${headers.length} header columns; they were ignored`, severity: "warning", code: "extra-cells", curveKey: null });
 
     const base: Partial<Record<KeyField, Cell>> = { ...defaults };
@@ -357,7 +361,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
           problems.push({ row: row.line, column: null, reason: "row has no point values (flow, head...); skipped", severity: "warning", code: "no-point-values", curveKey: null });
         continue;
       }
-      out.push({ line: row.line, block: 0, cells: base });
+      out.push({ line: row.line, block: 0, cells: base, ...(shifted ? { shifted } : {}) });
       continue;
     }
 
@@ -372,7 +376,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
       if (q.speed !== undefined) cells.speed = { raw: String(q.speed), column: b.columns[0].header, unit: "rpm", preset: q.speed };
       if (q.impeller !== undefined)
         cells.impeller = { raw: String(q.impeller), column: b.columns[0].header, unit: (q.impellerUnit ?? "mm") as DiameterUnit, preset: q.impeller };
-      out.push({ line: row.line, block: bi, cells });
+      out.push({ line: row.line, block: bi, cells, ...(shifted ? { shifted } : {}) });
     });
     if (!any && !(mapping.fillDownModel && modelCol && row.cells[modelCol.index]?.trim()))
       problems.push({ row: row.line, column: null, reason: "row has no point values in any block; skipped", severity: "warning", code: "no-point-values", curveKey: null });

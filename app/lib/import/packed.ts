@@ -107,8 +107,15 @@ export function packedResult(store: PointStore, stats: ValidationStats): Validat
 
 /** The first `n` curve sets of a result; of a fast-path result only those are made into objects (a preview needs no more). */
 export function firstCurveSets(result: ValidationResult, n: number): CurveSet[] {
+  return curveSetsFrom(result, 0, n);
+}
+
+/** The curve sets `from` (0-based, in file order) to `from + n` of either path's result; only those are built from a fast-path result. */
+export function curveSetsFrom(result: ValidationResult, from: number, n: number): CurveSet[] {
   const store = stores.get(result);
-  return store ? Array.from({ length: Math.min(n, store.sets.length) }, (_, i) => curveSetOf(store, i)) : result.curveSets.slice(0, n);
+  if (!store) return result.curveSets.slice(from, from + n);
+  const end = Math.min(from + n, store.sets.length);
+  return Array.from({ length: Math.max(0, end - from) }, (_, i) => curveSetOf(store, from + i));
 }
 
 /** The point store behind a fast-path result (every curve set ok), or null for any other result. */

@@ -50,8 +50,26 @@ function countFields(line: string, d: string): number {
   return n;
 }
 
-export function detectDelimiter(sample: string): Delimiter {
-  const lines = sample.split("\n").filter((l) => l.trim() !== "");
+/** The sample's records, a quoted cell's line breaks kept inside its record (a notes or model cell written on two lines). */
+function quotedRecords(sample: string): string[] {
+  const out: string[] = [];
+  let inQ = false;
+  let start = 0;
+  for (let i = 0; i < sample.length; i++) {
+    const c = sample[i];
+    if (c === '"') inQ = !inQ;
+    else if (c === "\n" && !inQ) {
+      out.push(sample.slice(start, i));
+      start = i + 1;
+    }
+  }
+  if (start < sample.length) out.push(sample.slice(start));
+  return out;
+}
+
+/** The first delimiter in preference order whose field count is the same on 70 % of the lines (fits), else the best scored. */
+function fitDelimiter(all: string[]): { d: Delimiter; fits: boolean } {
+  const lines = all.filter((l) => l.trim() !== "");
   // Title lines sit at the top: judge the delimiter on the lower two thirds of the sample.
   const body = lines.length > 3 ? lines.slice(Math.floor(lines.length / 3)) : lines;
   let best: { d: Delimiter; score: number } = { d: ",", score: -1 };
@@ -65,11 +83,23 @@ export function detectDelimiter(sample: string): Delimiter {
     let modeCount = 0;
     for (const [n, c] of freq) if (c > modeCount || (c === modeCount && n > mode)) [mode, modeCount] = [n, c];
     const consistency = body.length ? modeCount / body.length : 0;
-    if (mode >= 2 && consistency >= 0.7) return d; // first fitting one in preference order
+    if (mode >= 2 && consistency >= 0.7) return { d, fits: true }; // first fitting one in preference order
     const score = mode >= 2 ? mode * consistency : 0;
     if (score > best.score) best = { d, score };
   }
-  return best.d;
+  return { d: best.d, fits: false };
+}
+
+/**
+ * The delimiter, judged line by line; when none fits so, judged again record by record with quoted line breaks kept inside
+ * their record (a model or notes cell on two lines on every row split each row in two, and none fitted: the file was read
+ * tab-separated and every row refused). Lines first: a stray quote (an inch mark, 6") then spoils only its own line.
+ */
+export function detectDelimiter(sample: string): Delimiter {
+  const byLine = fitDelimiter(sample.split("\n"));
+  if (byLine.fits || !sample.includes('"')) return byLine.d;
+  const byRecord = fitDelimiter(quotedRecords(sample));
+  return byRecord.fits ? byRecord.d : byLine.d;
 }
 
 export function detectDecimalComma(rows: SourceRow[], delimiter: Delimiter): boolean {

@@ -27,7 +27,8 @@ export type ProblemCode =
   | "power-constant"
   | "npshr-small"
   | "key-not-given"
-  | "min-flow";
+  | "min-flow"
+  | "efficiency-fraction";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -18,6 +18,8 @@
  *   first point's head — the engine's rule with a tighter tolerance: this lets through the slight
  *   hump near shutoff and rounding in exports, and catches swapped or mistyped values and rising
  *   (system-like) curves (head-rising);
+ * - in a column read in percent, an efficiency below 1 % at a tenth of the curve's best-efficiency flow or more, on a
+ *   curve whose best is 10 % or more, is a fraction among percents (efficiency-fraction, efficiency-fraction.ts);
  * - a curve's best efficiency must lie within 5–95 % (efficiency-implausible: a column in fractions read
  *   as percent, or the reverse); it keeps the curve out under either policy;
  * - a curve needs at least 3 good points (too-few-points);
@@ -32,20 +34,20 @@
 import type { CurvePoint, CurveSet } from "./curve-schema";
 import type { Cell, LongRow } from "./mapping";
 import { parseNumber, underflows } from "./numbers";
-import { efficiencyPlausible, implausibleEfficiencyReason, NPSHR_SMALL, npshrSmallReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import { NPSHR_SMALL, npshrSmallReason } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
-import { constantPowerReason, PowerRun } from "./constant-power";
 import { MinFlowCells } from "./min-flow";
-import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
+import { checkCurve, WATER_20C_DENSITY, type Building } from "./curve-sequence";
+import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
 export { CurvePointSchema, CurveSetSchema, type CurvePoint, type CurveSet } from "./curve-schema";
+// The per-curve checks and their constants live in curve-sequence.ts.
+export { CONSISTENCY_TOLERANCE, G_STANDARD, NO_SPEED_WARNING, WATER_20C_DENSITY } from "./curve-sequence";
 
-/** The no-speed warning's words (its fix follows them); the tracer names it beside a curve traced without a speed. */
-export const NO_SPEED_WARNING = "no speed given for this curve";
 
 export interface ValidationStats {
   /** Point rows read (one per row in the long layout, one per row and block in the wide layout). */
@@ -75,19 +77,6 @@ const FIELD_LABEL: Record<NumericField, string> = {
   speed: "speed", impeller: "impeller diameter", flow: "flow", head: "head", efficiency: "efficiency", power: "power", npshr: "NPSHr", minflow: "maker's minimum flow",
 };
 
-interface Building {
-  set: CurveSet;
-  run: number;
-  firstLine: number;
-  lastLine: number;
-  flowColumn: string;
-  /** The efficiency column's header and unit (for the best-efficiency check), or null without one. */
-  effColumn: string | null;
-  effUnit: Unit | null;
-  /** The power column's header (for the constant-power check), or null without one. */
-  powerColumn: string | null;
-  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
-}
 
 export type Policy = "skip-curves" | "drop-points";
 
@@ -104,11 +93,6 @@ export interface ValidateOptions {
   density?: number;
 }
 
-/** Water at 20 °C, kg/m³ (from memory, 998.2; the demo data in fixtures/demo/FORMAT.md uses the same) and standard gravity, m/s² (3rd CGPM 1901, exact). */
-export const WATER_20C_DENSITY = 998.2;
-export const G_STANDARD = 9.80665;
-/** η from a row versus ρgQH/P: a gap above this (fraction, i.e. 3 points of efficiency) is flagged. */
-export const CONSISTENCY_TOLERANCE = 0.03;
 
 export function validateLongRows(rows: LongRow[], opts: ValidateOptions): ValidationResult {
   const problems: Problem[] = [];
@@ -131,6 +115,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
       rowProblems.push({ row: lr.line, column, reason, severity: "error", code });
+    if (lr.shifted) bad(null, "extra-cells", lr.shifted); // numbers beyond the header: its cells moved (shifted-cells.ts)
 
     const num = (field: NumericField, required: boolean): number | null | undefined => {
       const cell: Cell | undefined = lr.cells[field];
@@ -282,86 +267,14 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     for (const f of dropped)
       add(lr.line, lr.cells[f]!.column, "zero-dropped",
         `${FIELD_LABEL[f]} 0 at shutoff (zero flow) left out: ${f === "power" ? "shaft power" : "NPSHr"} is above zero on a pump curve; the point is kept without it`, key, "warning");
-    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column });
+    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw });
   }
 
-  // per-curve sequence checks
+  // per-curve sequence checks (curve-sequence.ts)
   const curveSets: CurveSet[] = [];
   for (const key of order) {
     const b = curves.get(key)!;
-    let prev: { line: number; point: CurvePoint; raw?: string } | null = null;
-    let first = 0; // head of the curve's first point, the lowest head so far and its line (the engine's rule)
-    let lowest = 0;
-    let lowestLine = 0;
-    let best = -1; // best efficiency of the accepted points, and its line
-    let bestLine = 0;
-    const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
-    // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
-    // a negative head followed by ordinary points is an error as before.
-    let tail = b.rows.length;
-    while (tail > 0 && b.rows[tail - 1].runOut) tail--;
-    for (let k = 0; k < b.rows.length; k++) {
-      const r = b.rows[k];
-      if (r.runOut) {
-        if (k >= tail)
-          add(r.line, r.headColumn, "run-out",
-            `run-out point past zero head (head ${qt("head", r.point.head)}) at the end of the curve; dropped, the curve is kept`, key, "warning");
-        else for (const p of r.runOut) add(p.row, p.column, p.code, p.reason, key);
-        continue;
-      }
-      const p = r.point;
-      if (prev) {
-        if (p.flow === prev.point.flow) {
-          add(r.line, r.flowColumn, "duplicate-flow", `flow equals the flow on line ${prev.line}: a curve has one point per flow`, key);
-          continue;
-        }
-        if (p.flow < prev.point.flow) {
-          add(r.line, r.flowColumn, "flow-not-increasing", `flow is lower than on line ${prev.line}: flow must increase along a curve`, key);
-          continue;
-        }
-        if (risesTooMuch(p.head, lowest, first)) {
-          // The rise and its limit each read apart from the other (qtExact/qtLimit, fmtPctExact), so a refused rise never reads as the limit.
-          const rise = p.head - lowest;
-          const limit = RISE_FRACTION * first;
-          add(r.line, r.headColumn, "head-rising",
-            `head rises to ${qt("head", p.head)}, ${qtExact("head", rise, [limit])} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): ` +
-            `${fmtPctExact(rise / first, [RISE_FRACTION])} of the first point's head (${qt("head", first)}), more than the ${fmtPctLimit(RISE_FRACTION)} allowed (${qtLimit("head", limit, [rise])})`, key);
-          continue;
-        }
-      } else if (!(p.head > 0)) {
-        add(r.line, r.headColumn, "zero",
-          `the curve's first point has head ${qt("head", p.head)}: a pump curve starts above zero head; this point is left out (the next one is the first)`, key);
-        continue;
-      } else first = lowest = p.head;
-      b.set.points.push(p);
-      if (p.power !== undefined) powers.add(p.flow, p.power, r.line);
-      prev = r;
-      if (p.head <= lowest) {
-        lowest = p.head;
-        lowestLine = r.line;
-      }
-      if (p.efficiency !== undefined && p.efficiency > best) {
-        best = p.efficiency;
-        bestLine = r.line;
-      }
-      // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0.
-      if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
-        const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
-        if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
-          add(r.line, null, "inconsistent",
-            `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
-            key, "warning");
-      }
-    }
-    if (best > 0 && !efficiencyPlausible(best))
-      add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);
-    if (powers.flat())
-      add(powers.firstLine, b.powerColumn, "power-constant", constantPowerReason(powers, key, b.powerColumn ?? "power"), key, "warning");
-    if (b.set.points.length < 3)
-      add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
-    problems.push(...minFlows.judge(key, b.set)); // sets b.set.minFlow where the figure holds
-    if (b.set.speed === null)
-      add(b.firstLine, null, "no-speed", `${NO_SPEED_WARNING}; map a speed column or set a default speed`, key, "warning");
+    checkCurve(b, key, add, density, minFlows);
     curveSets.push(b.set);
   }
 
@@ -388,8 +301,4 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       warnings: problems.length - errors,
     },
   };
-}
-
-function fmt(x: number): string {
-  return String(Math.round(x * 1000) / 1000);
 }

@@ -7,7 +7,7 @@ import { planBuffers, planImport, uploadReport, type ImportPlan, type UploadRepo
 import type { DocProblem } from "../projects/stored-doc";
 
 export type AnalysisJob =
-  | { kind: "summary"; bytes: Uint8Array; mappingJson: string | null; mapping?: unknown }
+  | { kind: "summary"; bytes: Uint8Array; mappingJson: string | null; mapping?: unknown; /** The page of the maker's minimum flow list (1 when absent). */ minFlowPage?: number | null }
   | {
       kind: "import";
       bytes: Uint8Array;
@@ -36,7 +36,7 @@ export type AnalysisOutput = { summary: UploadSummary } | ImportAnalysis;
 
 export function runJob(job: AnalysisJob): AnalysisOutput {
   const lib = { mappingJson: job.mappingJson };
-  if (job.kind === "summary") return { summary: summarise(analyseStored(job.bytes, lib, job.mapping)) };
+  if (job.kind === "summary") return { summary: summarise(analyseStored(job.bytes, lib, job.mapping), job.minFlowPage) };
   let a = analyseStored(job.bytes, lib, job.mapping);
   const { savedMappingProblems } = a; // (the policy's second pass below is given its mapping: it looks at no saved one)
   if (job.policy && a.mapping.policy !== job.policy) a = analyseStored(job.bytes, lib, { ...a.mapping, policy: job.policy });

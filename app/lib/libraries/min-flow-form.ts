@@ -35,7 +35,7 @@ export function readMinFlowForm(form: FormData, list: MinFlowList, units: UnitCh
     if (!k.startsWith("minflow.")) continue;
     const id = k.slice("minflow.".length);
     const row = /^\d{1,6}$/.test(id) ? list.rows.find((r) => r.n === Number(id)) : undefined;
-    if (!row) return { ok: false, status: 404, error: `No curve ${id.slice(0, 12)} in this upload's list of ${list.rows.length}: reload the page.` };
+    if (!row) return { ok: false, status: 404, error: `No curve ${id.slice(0, 12)} on this page of the upload's curves (${list.rows.length ? `${list.rows[0].n}–${list.rows[list.rows.length - 1].n} of ${list.total}` : "none"}): reload the page.` };
     posted.push([row, value]);
   }
   const errors: string[] = [];

@@ -146,9 +146,9 @@ export async function analyseForImport(
  * "stored" by the worker from the database (never through this thread). Rejects with
  * AnalysisFailed on a mapping that cannot work.
  */
-export function summariseUpload(upload: { id: number; sha256: string }, bytes: (() => Promise<Uint8Array>) | "stored", mappingJson: string | null, mapping?: unknown): Promise<UploadSummary> {
-  const k = `${upload.id}|${upload.sha256}|${mappingJson ?? ""}|${mapping === undefined ? "" : JSON.stringify(mapping)}`;
-  const job = { kind: "summary" as const, mappingJson, mapping };
+export function summariseUpload(upload: { id: number; sha256: string }, bytes: (() => Promise<Uint8Array>) | "stored", mappingJson: string | null, mapping?: unknown, minFlowPage?: number | null): Promise<UploadSummary> {
+  const k = `${upload.id}|${upload.sha256}|${mappingJson ?? ""}|${mapping === undefined ? "" : JSON.stringify(mapping)}|${minFlowPage ?? 1}`;
+  const job = { kind: "summary" as const, mappingJson, mapping, minFlowPage };
   return cache.get(k, () => (bytes === "stored" ? inWorker(job, { uploadId: upload.id }) : bytes().then((b) => inWorker(job, b))).then((out) => (out as { summary: UploadSummary }).summary));
 }
 

@@ -145,9 +145,9 @@ function flaggedRows(analysis: StoredAnalysis): { rows: FlaggedRow[]; total: num
  * What the mapping page needs, and no more: it is copied from the worker and sent to the browser, so
  * it stays small whatever the file's size (no list of every curve: counts are in `stats`; at most
  * PREVIEW_CURVES curves of at most PREVIEW_POINTS points, PROBLEM_ROWS_SHOWN problems, FLAGGED_ROWS_SHOWN rows, and the
- * maker's minimum flow of the first MIN_FLOW_CURVES_SHOWN curves with their source lines, upload-min-flows.ts).
+ * maker's minimum flow of one page of MIN_FLOW_CURVES_SHOWN curves with their source lines, upload-min-flows.ts).
  */
-export function summarise(analysis: StoredAnalysis) {
+export function summarise(analysis: StoredAnalysis, minFlowPage?: number | null) {
   const { result, sniff, mapping } = analysis;
   const problems = result.problems;
   return {
@@ -163,7 +163,7 @@ export function summarise(analysis: StoredAnalysis) {
     stats: result.stats,
     problems: problems.slice(0, PROBLEM_ROWS_SHOWN).map((p) => ({ ...p, curve: p.curveKey ? curveNameOfKey(p.curveKey) : "" })),
     problemCount: problems.length,
-    minFlows: minFlowList(analysis), // the first curves with their maker's minimum flow, for the page's editor
+    minFlows: minFlowList(analysis, minFlowPage), // one page of curves with their maker's minimum flow, for the page's editor
     preview: firstCurveSets(result, PREVIEW_CURVES).map((c) => ({
       id: c.key,
       label: `${curveName(c.model, c.speed, c.impellerDiameter)}${c.ok ? "" : " (flagged)"}`,

@@ -1,34 +1,40 @@
 // The curves of an upload with their maker's minimum continuous flow, as the mapping page lists them for the distributor to
 // set or correct (components/MinFlowEditor.tsx; the figures it saves go into a corrected copy of the upload:
-// min-flow-form.ts). Made in the analysis worker with the rest of the page's summary (upload-analysis.ts): at most
-// MIN_FLOW_CURVES_SHOWN curves, each with its source lines, whatever the file's size. Pure.
+// min-flow-form.ts). Made in the analysis worker with the rest of the page's summary (upload-analysis.ts): one page of
+// MIN_FLOW_CURVES_SHOWN curves (the page asked, `?minflows=N`, clamped by shared/paging.ts), each with its source lines,
+// whatever the file's size; every curve of the file is on some page, so each can be corrected. Pure.
 import { curveName, type Mapping } from "../import";
-import { firstCurveSets } from "../import/packed";
+import { curveSetsFrom } from "../import/packed";
+import { pageOf } from "../shared/paging";
 import type { StoredAnalysis } from "./upload-analysis";
 
-/** Curves listed with their figure on the mapping page (the first of the file, in its order). */
+/** Curves listed with their figure on one page of the mapping page's list (in the file's order). */
 export const MIN_FLOW_CURVES_SHOWN = 50;
 
-/** One curve: its number on the page (1-based, the analysis' order), name, last published flow and figure (m³/s; null: none), its rows. */
+/** One curve: its number in the file (1-based, the analysis' order: curve 51 is the first of page 2), name, last published flow and figure (m³/s; null: none), its rows. */
 export type MinFlowRow = { n: number; name: string; lastFlow: number | null; minFlow: number | null; ok: boolean; lines: number[] };
 
 export type MinFlowList = {
   rows: MinFlowRow[];
-  /** Curves in the file (rows holds the first MIN_FLOW_CURVES_SHOWN). */
+  /** Curves in the file (rows holds the page's, at most MIN_FLOW_CURVES_SHOWN). */
   total: number;
+  /** The page shown (1-based) and how many there are. */
+  page: number;
+  pages: number;
   /** The column mapped to the maker's minimum flow (long layout), or null when none is. */
   column: { index: number; header: string; unit: string } | null;
   /** Column blocks: each curve's figure is in its block's column, edited in the file (the page lists them read only). */
   wide: boolean;
 };
 
-/** The first curves of the analysis with their figures, and where the figure is written in the file. */
-export function minFlowList(analysis: Pick<StoredAnalysis, "result" | "mapping">): MinFlowList {
-  const sets = firstCurveSets(analysis.result, MIN_FLOW_CURVES_SHOWN);
+/** One page of the analysis' curves with their figures (the first page when none is asked), and where the figure is written in the file. */
+export function minFlowList(analysis: Pick<StoredAnalysis, "result" | "mapping">, page?: number | null): MinFlowList {
+  const at = pageOf(analysis.result.stats.curveSets, MIN_FLOW_CURVES_SHOWN, page);
+  const sets = curveSetsFrom(analysis.result, at.first, MIN_FLOW_CURVES_SHOWN);
   const col = analysis.mapping.layout === "long" ? analysis.mapping.columns.find((c) => c.field === "minflow" && !c.block) : undefined;
   return {
     rows: sets.map((c, i) => ({
-      n: i + 1,
+      n: at.first + i + 1,
       name: curveName(c.model, c.speed, c.impellerDiameter),
       lastFlow: c.points.length ? c.points[c.points.length - 1].flow : null,
       minFlow: c.minFlow ?? null,
@@ -36,6 +42,8 @@ export function minFlowList(analysis: Pick<StoredAnalysis, "result" | "mapping">
       lines: c.sourceRows,
     })),
     total: analysis.result.stats.curveSets,
+    page: at.page,
+    pages: at.pages,
     column: col ? { index: col.index, header: col.header, unit: col.unit ?? "m3/h" } : null,
     wide: analysis.mapping.layout === "wide",
   };

@@ -7,10 +7,17 @@ import { affectedRows, db } from "@db/client.server";
 import { uploads } from "@db/schema";
 import { data } from "react-router";
 import type { Viewer } from "../auth/viewer.server";
-import { decodeBytes, looksBinary } from "../import";
+import { decodeBytes, looksBinary, looksUtf16WithoutBom } from "../import";
+import { fmtInt } from "../shared/format";
 import { getOwnLibraryForWrite } from "./libraries.server";
 
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
+
+/** A file's name as a refusal names it: at most 120 characters (a name of any length is never echoed whole). */
+const named = (file: File) => (file.name.length > 120 ? `${file.name.slice(0, 117)}…` : file.name) || "The file";
+
+/** A size in MB (MiB) with its bytes, so a refused size never reads as the limit: "20.0 MB (20,971,521 bytes)". */
+const sizeText = (bytes: number, decimals: number) => `${(bytes / 1048576).toFixed(decimals)} MB (${fmtInt(bytes)} bytes)`;
 
 export const PENDING_UPLOAD_TTL_HOURS = 24;
 
@@ -61,13 +68,15 @@ const TEXT_TYPES = new Set(["text/csv", "text/plain", "application/csv", "applic
 /** Checks size, type and encoding; keeps the original bytes with their SHA-256. */
 export async function storeUpload(viewer: Viewer, libraryId: number, file: File): Promise<number> {
   const lib = await getOwnLibraryForWrite(viewer, libraryId);
-  if (file.size === 0) throw new UploadRejected(`${file.name || "The file"} is empty.`);
-  if (file.size > MAX_UPLOAD_BYTES) throw new UploadRejected(`${file.name} is ${(file.size / 1048576).toFixed(1)} MB; the limit is ${MAX_UPLOAD_BYTES / 1048576} MB.`);
+  if (file.size === 0) throw new UploadRejected(`${named(file)} is empty.`);
+  if (file.size > MAX_UPLOAD_BYTES) throw new UploadRejected(`${named(file)} is ${sizeText(file.size, 1)}; the limit is ${sizeText(MAX_UPLOAD_BYTES, 0)}.`);
   if (!/\.(csv|txt|tsv)$/i.test(file.name) || !TEXT_TYPES.has(file.type)) {
-    throw new UploadRejected(`${file.name} is not a CSV file (expected .csv, .tsv or .txt).`);
+    throw new UploadRejected(`${named(file)} is not a CSV file (expected .csv, .tsv or .txt).`);
   }
   const bytes = Buffer.from(await file.arrayBuffer());
-  if (looksBinary(bytes)) throw new UploadRejected(`${file.name} looks like a binary file, not CSV text.`);
+  if (looksUtf16WithoutBom(bytes))
+    throw new UploadRejected(`${named(file)} looks like UTF-16 text without a byte-order mark (every other byte is 0), which cannot be told from binary data: save it as UTF-8, or as UTF-16 with its byte-order mark, and upload it again.`);
+  if (looksBinary(bytes)) throw new UploadRejected(`${named(file)} looks like a binary file, not CSV text.`);
   return insertUpload(viewer, lib.id, file.name, bytes);
 }
 

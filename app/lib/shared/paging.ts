@@ -15,10 +15,10 @@ export function pageOf(total: number, pageSize: number, asked?: number | null): 
   return { page, pages, pageSize, total, first: (page - 1) * pageSize };
 }
 
-/** The link to another page: the current query string (`search`) with `page` set; repeated keys kept in order. */
-export function pageHref(search: string, page: number): string {
+/** The link to another page: the current query string (`search`) with `page` (or the list's own key) set; repeated keys kept in order. */
+export function pageHref(search: string, page: number, key = "page"): string {
   const q = new URLSearchParams(search);
-  q.set("page", String(page));
+  q.set(key, String(page));
   return `?${q}`;
 }
 

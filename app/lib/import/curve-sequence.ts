@@ -1,0 +1,130 @@
+/**
+ * One curve's points in file order, as validate.ts collected them (pure): flow strictly increasing (flow-not-increasing,
+ * duplicate-flow), the first head above zero (zero), head rising at most 5 % of the first head above the lowest before it
+ * (head-rising, point-rules.ts), run-out points past zero head at the end dropped (run-out), a fraction written among
+ * percents (efficiency-fraction, efficiency-fraction.ts), the best efficiency plausible (efficiency-implausible), η against
+ * ρgQH/P (inconsistent), one power at every point (power-constant), at least 3 points (too-few-points), the maker's
+ * minimum flow (min-flow) and a speed (no-speed). The accepted points go into the set.
+ */
+import type { CurvePoint, CurveSet } from "./curve-schema";
+import { constantPowerReason, PowerRun } from "./constant-power";
+import { fractionsAmongPercents } from "./efficiency-fraction";
+import type { MinFlowCells } from "./min-flow";
+import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import type { Problem, ProblemCode } from "./types";
+import type { Unit } from "./units-in-headers";
+import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
+
+/** The no-speed warning's words (its fix follows them); the tracer names it beside a curve traced without a speed. */
+export const NO_SPEED_WARNING = "no speed given for this curve";
+/** Water at 20 °C, kg/m³ (from memory, 998.2; the demo data in fixtures/demo/FORMAT.md uses the same) and standard gravity, m/s² (3rd CGPM 1901, exact). */
+export const WATER_20C_DENSITY = 998.2;
+export const G_STANDARD = 9.80665;
+/** η from a row versus ρgQH/P: a gap above this (fraction, i.e. 3 points of efficiency) is flagged. */
+export const CONSISTENCY_TOLERANCE = 0.03;
+
+/** A curve being collected: its set, where it was written, its columns and its point rows in file order. */
+export interface Building {
+  set: CurveSet;
+  run: number;
+  firstLine: number;
+  lastLine: number;
+  flowColumn: string;
+  /** The efficiency column's header and unit (for the best-efficiency check), or null without one. */
+  effColumn: string | null;
+  effUnit: Unit | null;
+  /** The power column's header (for the constant-power check), or null without one. */
+  powerColumn: string | null;
+  /** effRaw: the efficiency cell as written (for efficiency-fraction's message). */
+  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; effRaw?: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
+}
+
+export type AddProblem = (row: number, column: string | null, code: ProblemCode, reason: string, curve: string | null, severity?: "error" | "warning") => void;
+
+/** Checks one curve's rows in order and puts the accepted points into `b.set` (and its maker's minimum flow, where it holds). */
+export function checkCurve(b: Building, key: string, add: AddProblem, density: number, minFlows: MinFlowCells): void {
+    let prev: { line: number; point: CurvePoint; raw?: string } | null = null;
+  let first = 0; // head of the curve's first point, the lowest head so far and its line (the engine's rule)
+  let lowest = 0;
+  let lowestLine = 0;
+  let best = -1; // best efficiency of the accepted points, and its line
+  let bestLine = 0;
+  const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
+  // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
+  // a negative head followed by ordinary points is an error as before.
+  let tail = b.rows.length;
+  while (tail > 0 && b.rows[tail - 1].runOut) tail--;
+  // a fraction written among percents (“0.72” beside 50, 70, 72): neither reading is taken (efficiency-fraction.ts)
+  const fractions = fractionsAmongPercents(b.rows.filter((r) => !r.runOut).map((r) => ({ line: r.line, flow: r.point.flow, efficiency: r.point.efficiency, effRaw: r.effRaw })), b.effUnit);
+  for (let k = 0; k < b.rows.length; k++) {
+    const r = b.rows[k];
+    if (r.runOut) {
+      if (k >= tail)
+        add(r.line, r.headColumn, "run-out",
+          `run-out point past zero head (head ${qt("head", r.point.head)}) at the end of the curve; dropped, the curve is kept`, key, "warning");
+      else for (const p of r.runOut) add(p.row, p.column, p.code, p.reason, key);
+      continue;
+    }
+    const fraction = fractions.get(r.line);
+    if (fraction) {
+      add(r.line, b.effColumn, "efficiency-fraction", fraction, key);
+      continue;
+    }
+    const p = r.point;
+    if (prev) {
+      if (p.flow === prev.point.flow) {
+        add(r.line, r.flowColumn, "duplicate-flow", `flow equals the flow on line ${prev.line}: a curve has one point per flow`, key);
+        continue;
+      }
+      if (p.flow < prev.point.flow) {
+        add(r.line, r.flowColumn, "flow-not-increasing", `flow is lower than on line ${prev.line}: flow must increase along a curve`, key);
+        continue;
+      }
+      if (risesTooMuch(p.head, lowest, first)) {
+        // The rise and its limit each read apart from the other (qtExact/qtLimit, fmtPctExact), so a refused rise never reads as the limit.
+        const rise = p.head - lowest;
+        const limit = RISE_FRACTION * first;
+        add(r.line, r.headColumn, "head-rising",
+          `head rises to ${qt("head", p.head)}, ${qtExact("head", rise, [limit])} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): ` +
+          `${fmtPctExact(rise / first, [RISE_FRACTION])} of the first point's head (${qt("head", first)}), more than the ${fmtPctLimit(RISE_FRACTION)} allowed (${qtLimit("head", limit, [rise])})`, key);
+        continue;
+      }
+    } else if (!(p.head > 0)) {
+      add(r.line, r.headColumn, "zero",
+        `the curve's first point has head ${qt("head", p.head)}: a pump curve starts above zero head; this point is left out (the next one is the first)`, key);
+      continue;
+    } else first = lowest = p.head;
+    b.set.points.push(p);
+    if (p.power !== undefined) powers.add(p.flow, p.power, r.line);
+    prev = r;
+    if (p.head <= lowest) {
+      lowest = p.head;
+      lowestLine = r.line;
+    }
+    if (p.efficiency !== undefined && p.efficiency > best) {
+      best = p.efficiency;
+      bestLine = r.line;
+    }
+    // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0.
+    if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
+      const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
+      if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
+        add(r.line, null, "inconsistent",
+          `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
+          key, "warning");
+    }
+  }
+  if (best > 0 && !efficiencyPlausible(best))
+    add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);
+  if (powers.flat())
+    add(powers.firstLine, b.powerColumn, "power-constant", constantPowerReason(powers, key, b.powerColumn ?? "power"), key, "warning");
+  if (b.set.points.length < 3)
+    add(b.firstLine, b.flowColumn, "too-few-points", `curve has ${b.set.points.length} good point(s); at least 3 are needed`, key);
+  for (const p of minFlows.judge(key, b.set)) add(p.row, p.column, p.code, p.reason, key, p.severity); // sets b.set.minFlow where the figure holds
+  if (b.set.speed === null)
+    add(b.firstLine, null, "no-speed", `${NO_SPEED_WARNING}; map a speed column or set a default speed`, key, "warning");
+}
+
+function fmt(x: number): string {
+  return String(Math.round(x * 1000) / 1000);
+}
