@@ -3,7 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit, fmtPctSide } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSide, qt } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -101,4 +101,22 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; he
   else if (x.passedOn === "both") out.push("Met on both arms.");
   else out.push("Neither arm is met as read.");
   return out;
+}
+
+/**
+ * The verdict's rule and numbers in one sentence, for the surfaces that show a check's verdict without its page — the
+ * engineer's e-mail, the selection's list of checks, the field page's history (quantity tokens, rendered in the reader's
+ * units): each arm's deviation as the verdict reads it (`armDeviationText`), the curve's value it is taken from and the
+ * grade's allowance, met or not. Null where no verdict rests on the cross (no flow meter, or no tolerance verdict given).
+ */
+export function crossSummary(r: Pick<CheckResult, "engine" | "delivered" | "deviation" | "grade" | "verdict">): string | null {
+  const x = r.verdict === "unknown" ? null : crossOf(r);
+  if (!x) return null;
+  const said = (a: CrossArm) => {
+    const other = a.arm === "head" ? "flow" : "head";
+    if (a.deviation === null || a.curveValue === null) return `${a.arm} arm not read (the curve gives no ${a.arm} at the measured ${other})`;
+    const state = !a.pass ? "not met" : onEdge(a) ? "met, at the limit" : "met";
+    return `${a.arm} ${armDeviationText(a)} of the curve's ${qt(a.arm, a.curveValue)} at the measured ${other} (allowed ${tol(a.allowed)}), ${state}`;
+  };
+  return `Tolerance cross of grade ${x.grade} (either arm meets it): ${said(x.head)}; ${said(x.flow)}.`;
 }

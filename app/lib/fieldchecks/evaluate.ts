@@ -28,6 +28,7 @@ import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
+import { crossSummary } from "./cross";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -327,5 +328,7 @@ export function deliveredSentence(r: CheckResult): string {
   const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
   // Off the curve's published flows, judged on the part published: said with the verdict (curve-ends.ts).
   const published = r.warnings.find((w) => w.startsWith(PUBLISHED_PART));
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
+  // The verdict's rule and numbers: each arm of the cross with the curve's value and the grade's allowance (cross.ts).
+  const arms = crossSummary(r);
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${arms ? ` ${arms}` : ""}${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
 }
