@@ -35,8 +35,8 @@ beforeAll(async () => {
 
 type Row = { id: number; verdict?: string; cross?: string | null };
 const expected = {
-  inside: "Tolerance cross of grade 2B (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met;",
-  outside: "Tolerance cross of grade 2B (either arm meets it): head +5.0001 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), not met;",
+  inside: "Tolerance cross of grade 2B, as read (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met;",
+  outside: "Tolerance cross of grade 2B, as read (either arm meets it): head +5.0001 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), not met;",
 };
 
 test("the field page's history: each check's verdict with its arms' numbers, a millionth either side of 2B's +5 %", async () => {

@@ -30,7 +30,7 @@ describe("a millionth either side of 2B's +5 % on head", () => {
     const inside = shown(fieldsForHead(28 * (1.05 - 1e-6), RHO20, { flow: "0.012" }));
     const outside = shown(fieldsForHead(28 * (1.05 + 1e-6), RHO20, { flow: "0.012" }));
     expect(inside).toContain("within tolerance against grade 2B.");
-    expect(inside).toContain("Tolerance cross of grade 2B (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met;");
+    expect(inside).toContain("Tolerance cross of grade 2B, as read (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met;");
     expect(outside).toContain("outside tolerance against grade 2B.");
     expect(outside).toContain("head +5.0001 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), not met;");
   });

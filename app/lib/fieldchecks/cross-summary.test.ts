@@ -23,9 +23,9 @@ describe("the head arm either side of 2B's +5 % (H = 40 − 1000·Q: 28 m at 12 
     const inside = check(28 * (1.05 - 1e-6), 0.012);
     const outside = check(28 * (1.05 + 1e-6), 0.012);
     expect([inside.verdict, outside.verdict]).toEqual(["pass", "fail"]);
-    expect(mail(inside)).toContain("Judged against grade 2B: within tolerance. Tolerance cross of grade 2B (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met; flow +13.2 % of the curve's");
+    expect(mail(inside)).toContain("Judged against grade 2B: within tolerance. Tolerance cross of grade 2B, as read (either arm meets it): head +4.9999 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met; flow +13.2 % of the curve's");
     // Was: "… Judged against grade 2B: outside tolerance. Power and efficiency …" (no numbers for flow and head).
-    expect(mail(outside)).toContain("Judged against grade 2B: outside tolerance. Tolerance cross of grade 2B (either arm meets it): head +5.0001 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), not met; flow +13.2 % of the curve's");
+    expect(mail(outside)).toContain("Judged against grade 2B: outside tolerance. Tolerance cross of grade 2B, as read (either arm meets it): head +5.0001 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), not met; flow +13.2 % of the curve's");
     expect(mail(outside)).toMatch(/at the measured head \(allowed −8 % to \+8 %\), not met\. /);
   });
   test("exactly at +5 %: met, at the limit, with the limit's own number", () => {

@@ -118,5 +118,5 @@ export function crossSummary(r: Pick<CheckResult, "engine" | "delivered" | "devi
     const state = !a.pass ? "not met" : onEdge(a) ? "met, at the limit" : "met";
     return `${a.arm} ${armDeviationText(a)} of the curve's ${qt(a.arm, a.curveValue)} at the measured ${other} (allowed ${tol(a.allowed)}), ${state}`;
   };
-  return `Tolerance cross of grade ${x.grade} (either arm meets it): ${said(x.head)}; ${said(x.flow)}.`;
+  return `Tolerance cross of grade ${x.grade}, as read (either arm meets it): ${said(x.head)}; ${said(x.flow)}.`;
 }
