@@ -8,7 +8,7 @@ import { fmtDate } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
 export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string } & (
-  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; power: string; note: string | null }
+  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; cross: string | null; power: string; note: string | null }
   | { readable: false; unreadable: string }
 );
 
@@ -47,6 +47,7 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                   </td>
                   <td className="max-w-xs text-xs">
                     {c.rule}
+                    {c.cross ? <div data-testid="verdict-cross">{c.cross}</div> : null}
                     <div className="text-slate-600">{c.power}</div>
                   </td>
                 </>

@@ -302,7 +302,7 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
       headDeviation, flowDeviation, powerDeviation, flowBand: null, grades: verdicts, bestGrade: best, verdict, dutyDeviation,
       message: best ? `Delivered point is within grade ${best} of the curve${powerClause(input.measuredPower !== undefined, bestPower)}`
         : missedOnPower ? `Delivered point meets grade ${missedOnPower.id} on flow and head but misses its ${missedLimits(missedOnPower.power!)}`
-        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctSignedExact(headDeviation, grades.flatMap((g) => [g.head[0], g.head[1]]))} from curve)` : ""}`,
+        : `Delivered point is outside every grade checked${headDeviation !== null ? ` (head ${fmtPctSignedExact(headDeviation, grades.flatMap((g) => [g.head[0], g.head[1]]), true)} from curve)` : ""}`,
       warnings };
   }
 

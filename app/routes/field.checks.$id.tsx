@@ -8,9 +8,10 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { armDeviationText, crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
+import { fmtPctSignedExact } from "~/engine/quantityText";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 
@@ -50,7 +51,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 type RecordData = Awaited<ReturnType<typeof loader>>;
 
-const signed = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : `${x > 0 ? "+" : ""}${(x * 100).toFixed(1)} %`);
+/** A deviation from the design duty (no verdict rests on it), signed with the true minus. */
+const signed = (x: number | null | undefined) => fmtPctSignedExact(x, [], true);
 
 function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
@@ -128,7 +130,8 @@ export default function FieldCheckRecord() {
             flow {signed(r.deviation.dutyFlow)}, head {signed(r.deviation.dutyHead)}
           </dd>
           <dt className="text-slate-600">From the curve at the measured speed</dt>
-          <dd>{e.flowSource === "measured" ? `flow ${signed(r.deviation.curveFlow)}, head ${signed(r.deviation.curveHead)}` : "— (the flow was taken from the curve)"}</dd>
+          {/* Each arm's deviation apart from its allowance, as the cross reads it ("+5.0001 %" beside a fail, never "+5.0 %"). */}
+          <dd>{cross ? `flow ${armDeviationText(cross.flow)}, head ${armDeviationText(cross.head)}` : "— (the flow was taken from the curve)"}</dd>
           <dt className="text-slate-600">Curve head at this flow</dt>
           <dd>{fmtHead(sys, e.curveHead)}</dd>
           <dt className="text-slate-600">Speed</dt>

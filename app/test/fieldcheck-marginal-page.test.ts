@@ -36,7 +36,7 @@ test("the verdict's sentence on the page: missed as read, and the point within t
   expect(html).toContain('data-verdict="marginal"');
   const said = html.match(/<p class="text-sm">Delivered point[^<]*<\/p>/)?.[0] ?? "(no verdict sentence)";
   // Was: "Delivered point is outside every grade checked (head 6.1 % from curve)." alone beside "at the tolerance limit".
-  expect(said).toMatch(/Delivered point is outside every grade checked \(head 6\.1 % from curve\) as read; within the readings' uncertainty \(flow ± 0\.0 %, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
+  expect(said).toMatch(/Delivered point is outside every grade checked \(head \+6\.1 % from curve\) as read; within the readings' uncertainty \(flow ± 0\.0 %, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
   expect(said).not.toContain("⟦");
   expect(html).not.toContain("⟦");
 });

@@ -59,9 +59,16 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
                 {fmtDateTime(c.createdAt)}
               </p>
               <p className="text-slate-700">
-                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}. The server works it out again when it
-                is sent.{c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
+                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}
+                {c.local.grade ? ` against grade ${c.local.grade}` : ""}. The server works it out again when it is sent.
+                {c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
               </p>
+              {/* The verdict's rule and numbers, or why there is none (checks kept before carry neither). */}
+              {c.local.cross || c.local.note ? (
+                <p className="text-xs text-slate-600" data-testid="pending-verdict-numbers">
+                  {renderUnits([c.local.cross, c.local.note].filter(Boolean).join(" "), sys)}
+                </p>
+              ) : null}
               {c.message ? <p className="font-semibold text-fail">{renderUnits(c.message, sys)}</p> : null}
               {c.status === "conflict" && c.latest ? (
                 <>

@@ -63,7 +63,7 @@ export function SelectionSummary({ selection, unitSystem }: { selection: Summary
 
 /** One check of the history (page.server.ts `checkPage`): readable, or what is wrong with its stored record. */
 export type HistoryEntry = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes } & (
-  | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string }
+  | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string; cross?: string | null }
   | { readable: false; unreadable: string }
 );
 
@@ -95,6 +95,11 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
                     {check.flowSource === "measured" ? "" : " (flow inferred)"}
                   </span>
                   <VerdictBadge verdict={check.verdict} grade={check.grade} />
+                  {check.cross ? (
+                    <span className="w-full text-xs text-slate-600" data-testid="verdict-cross">
+                      {check.cross}
+                    </span>
+                  ) : null}
                 </>
               ) : (
                 <span className="w-full text-slate-700" data-testid="unreadable-check">

@@ -2,7 +2,7 @@
 // (`parseCheckFields`, the grade, `headRefusal` — readings that give the pump a total head at or below zero refused at the
 // discharge reading with the head they give, submit.server.ts), then the check worked out on the phone with the same engine
 // (`evaluateCheck`). A check the server would refuse is never queued: the contractor sees the field error on site. Pure.
-import { checkedHeadRefusal, evaluateCheck, gradeById, headRefusal, parseCheckFields, type FrozenSelection } from "~/lib/fieldchecks";
+import { checkedHeadRefusal, crossSummary, evaluateCheck, gradeById, headRefusal, parseCheckFields, verdictNote, type FrozenSelection } from "~/lib/fieldchecks";
 import { renderUnits, type UnitChoice } from "~/lib/shared/units";
 import type { QueuedCheck } from "./queue";
 
@@ -29,7 +29,9 @@ export function checkOnPhone(raw: Record<string, string>, frozen: FrozenSelectio
     // The flow inferred from the curve: the check's own head at or below zero is the server's refusal too (submit.server.ts).
     const noCheckedHead = parsed.readings.flow === null ? checkedHeadRefusal(result.delivered.head, parsed.readings, parsed.fields) : null;
     if (noCheckedHead) return { ok: false, errors: { dPressure: noCheckedHead } };
-    return { ok: true, local: { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head } };
+    // The verdict with its grade, rule and numbers (or why there is none), as the server's lists say it.
+    const local = { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head, grade: result.grade.id, cross: crossSummary(result), note: verdictNote(result) };
+    return { ok: true, local };
   } catch (e) {
     return { ok: false, errors: { _form: `These readings cannot be worked out: ${renderUnits(e instanceof Error ? e.message : String(e), units)}.` } };
   }

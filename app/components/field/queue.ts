@@ -19,7 +19,16 @@ export type QueuedCheck = {
   /** The phone's clock when the check was kept (the readings were taken): sent as `takenAt`. */
   createdAt: string;
   /** What the phone worked out with the engine, shown until the server's own result is in. */
-  local: { verdict: string; verdictText: string; flow: number | null; head: number };
+  local: {
+    verdict: string;
+    verdictText: string;
+    flow: number | null;
+    head: number;
+    /** The grade judged, and the verdict's rule and numbers (cross.ts `crossSummary`) or why there is none (`verdictNote`), quantity tokens; missing from checks kept before. */
+    grade?: string;
+    cross?: string | null;
+    note?: string | null;
+  };
   /** "waiting" with a `message`: not sent for a reason that passes (the session is in another workspace). */
   status: "waiting" | "conflict" | "refused";
   message?: string;

@@ -3,7 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit, fmtPctSide } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSide, qt } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -48,6 +48,22 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
 const pc = (x: number, allowed: readonly [number, number]) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), allowed)}`;
 const tol = (a: readonly [number, number]) => `${fmtPctSide(a[0], "−")} to ${fmtPctSide(a[1], "+")}`; // grade 1U's flow: "0 % to +10 %", not "−0 %"
 
+/** Whether an arm is met on its edge, within the rounding allowance (`EDGE`): said with the limit's own number. */
+const onEdge = (a: CrossArm) => a.pass && a.margin !== null && Math.abs(a.margin) <= EDGE;
+
+/**
+ * One arm's deviation from the curve as the verdict reads it: signed, with the decimals that keep it apart from the arm's
+ * allowance ("+5.0001 %" beside a limit of +5 %, never "+5.0 %"); met on the edge within the rounding allowance, the limit's
+ * own number ("+5 %", "0 %"); "—" off the curve. The cross's sentences and the check page's row beside the verdict.
+ */
+export function armDeviationText(a: CrossArm): string {
+  if (a.deviation === null || a.margin === null) return "—";
+  if (!onEdge(a)) return pc(a.deviation, a.allowed);
+  const upper = a.allowed[1] - a.deviation <= a.deviation + a.allowed[0];
+  const limit = upper ? a.allowed[1] : a.allowed[0];
+  return limit === 0 ? "0 %" : `${upper ? "+" : "−"}${fmtPctLimit(limit)}`;
+}
+
 /**
  * Formats a flow (m³/s) or a head (m) in the reader's units; with `against`, the values it is judged beside, with the
  * decimals that keep it apart from them (`fmtQExact`; `limit`: the curve's value, its added zeros dropped).
@@ -60,7 +76,7 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; he
     `Grade ${x.grade} is judged with ISO 9906's tolerance cross around the curve at the delivered point: a head arm and a flow arm; meeting either arm meets the grade.`,
   ];
   const line = (a: CrossArm) => {
-    const edgeMet = a.pass && a.margin !== null && Math.abs(a.margin) <= EDGE;
+    const edgeMet = onEdge(a);
     // The measured value and the curve's read apart (a grade allowing 0 % on one side misses by less than the unit's
     // digits: "the curve gives 33.0 m³/h; the measured 33.0 m³/h is −0.01 % … not met"); on the edge they are one value.
     const own = a.arm === "head" ? fmt.head : fmt.flow;
@@ -70,14 +86,9 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; he
     const meas = apart ? own(a.measured, [a.curveValue!]) : own(a.measured);
     if (a.deviation === null || a.margin === null) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at} — not met (off the curve).`;
     // On the edge within the rounding allowance: met, and said with the limit's own number (never "met, … outside").
-    if (edgeMet) {
-      const upper = a.allowed[1] - a.deviation <= a.deviation + a.allowed[0];
-      const limit = upper ? a.allowed[1] : a.allowed[0];
-      const edge = limit === 0 ? "0 %" : `${upper ? "+" : "−"}${fmtPctLimit(limit)}`;
-      return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${edge} (allowed ${tol(a.allowed)}) — met, at the limit (the allowance includes its edge).`;
-    }
+    if (edgeMet) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${armDeviationText(a)} (allowed ${tol(a.allowed)}) — met, at the limit (the allowance includes its edge).`;
     const by = `${fmtPctExact(Math.abs(a.margin)).replace(" %", "")} points ${a.margin >= 0 ? "inside" : "outside"}`;
-    return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${pc(a.deviation, a.allowed)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
+    return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${armDeviationText(a)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
   };
   out.push(line(x.head), line(x.flow));
   // The other arm off the curve has no percentage to compare: it cannot be read, and the grade rests on the arm met.
@@ -90,4 +101,22 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; he
   else if (x.passedOn === "both") out.push("Met on both arms.");
   else out.push("Neither arm is met as read.");
   return out;
+}
+
+/**
+ * The verdict's rule and numbers in one sentence, for the surfaces that show a check's verdict without its page — the
+ * engineer's e-mail, the selection's list of checks, the field page's history (quantity tokens, rendered in the reader's
+ * units): each arm's deviation as the verdict reads it (`armDeviationText`), the curve's value it is taken from and the
+ * grade's allowance, met or not. Null where no verdict rests on the cross (no flow meter, or no tolerance verdict given).
+ */
+export function crossSummary(r: Pick<CheckResult, "engine" | "delivered" | "deviation" | "grade" | "verdict">): string | null {
+  const x = r.verdict === "unknown" ? null : crossOf(r);
+  if (!x) return null;
+  const said = (a: CrossArm) => {
+    const other = a.arm === "head" ? "flow" : "head";
+    if (a.deviation === null || a.curveValue === null) return `${a.arm} arm not read (the curve gives no ${a.arm} at the measured ${other})`;
+    const state = !a.pass ? "not met" : onEdge(a) ? "met, at the limit" : "met";
+    return `${a.arm} ${armDeviationText(a)} of the curve's ${qt(a.arm, a.curveValue)} at the measured ${other} (allowed ${tol(a.allowed)}), ${state}`;
+  };
+  return `Tolerance cross of grade ${x.grade}, as read (either arm meets it): ${said(x.head)}; ${said(x.flow)}.`;
 }

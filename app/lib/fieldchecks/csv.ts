@@ -31,7 +31,7 @@ const VERDICT_RULE =
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
   "unknown: no flow meter, so flow and head are not judged; or, with one, verdict_note says why (the measured speed outside the range the curve may be translated in, " +
-  "a liquid with no curve to hold the pump to, or a measured flow outside the flows the curve is published for that the grade's flow arm does not reach). " +
+  "a liquid with no curve to hold the pump to, a suction reading at or below the liquid's vapour pressure (misread, or the pump cavitating), or a measured flow outside the flows the curve is published for that the grade's flow arm does not reach). " +
   "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so.";
 
 /** The quantities a note may carry (verdict-note words: flows, heads, pressures, power, temperature, speed). */

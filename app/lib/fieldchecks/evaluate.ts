@@ -28,6 +28,8 @@ import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
+import { crossSummary } from "./cross";
+import { suctionAtVapour } from "./suction-vapour";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -225,6 +227,12 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // is 724.7 rpm, not "725 rpm", which is 50 % of 1450 rpm, inside the range).
     warnings.push(`No tolerance verdict: the measured speed (${fmtNumExact(measured!, SPEED_RANGE.map((f) => f * rated!), 0)} rpm) is ${fmtPctExact(speedRatio, [...SPEED_RANGE])} of the curve's ${fmtNumExact(rated!, [Math.round(rated!)], 0)} rpm, outside the ${fmtPctLimit(SPEED_RANGE[0])}–${fmtPctLimit(SPEED_RANGE[1])} within which the curve may be translated to it by the affinity laws (ISO 9906, from memory). Check nearer the curve's speed.`);
   }
+  // A suction reading at or below the liquid's vapour pressure: misread, or the pump cavitating — no tolerance verdict on it
+  // (suction-vapour.ts); where there is none anyway, said as a note.
+  const atVapour = suctionAtVapour(readings.suction, fluid.vaporPressure, readings.temperatureC);
+  const vapourNoVerdict = atVapour !== null && verdict !== "unknown";
+  if (vapourNoVerdict) verdict = "unknown";
+  if (atVapour) warnings.push(vapourNoVerdict ? `No tolerance verdict: ${atVapour}` : `${atVapour.charAt(0).toUpperCase()}${atVapour.slice(1)}`);
   // A measured flow outside the curve's published flows: judged only on the part of the cross that reaches the published
   // curve, and said so; where the cross does not reach it, no tolerance verdict (curve-ends.ts).
   const curveEnd = verdict !== "unknown" && engine.flowSource === "measured" && engine.flow !== null ? curveEndOf(curve, engine.flow, grade, readings.flowAccuracy) : null;
@@ -277,6 +285,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     // The engine judged the point on the translated curve; outside the speed range that judgement is not given.
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
+      : vapourNoVerdict ? `Delivered point not judged against grade ${grade.id}: the suction reading is at or below the liquid's vapour pressure, so it is misread or the pump is cavitating (see the warnings)`
       : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
       : `${marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
@@ -327,5 +336,7 @@ export function deliveredSentence(r: CheckResult): string {
   const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
   // Off the curve's published flows, judged on the part published: said with the verdict (curve-ends.ts).
   const published = r.warnings.find((w) => w.startsWith(PUBLISHED_PART));
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
+  // The verdict's rule and numbers: each arm of the cross with the curve's value and the grade's allowance (cross.ts).
+  const arms = crossSummary(r);
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${arms ? ` ${arms}` : ""}${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
 }

@@ -29,7 +29,7 @@ export {
 } from "./form";
 export { verdictNote, type CheckResult, type Pt } from "./result";
 export { MAX_CHECK_PHOTO_BYTES, MAX_PHOTO_BYTES, MAX_PHOTOS, photoLimitsText, photoProblem, tooLargeText } from "./photo-limits";
-export { crossOf, crossSentences, type CrossArm } from "./cross";
+export { armDeviationText, crossOf, crossSentences, crossSummary, type CrossArm } from "./cross";
 export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
 export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";

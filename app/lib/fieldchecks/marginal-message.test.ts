@@ -25,12 +25,12 @@ describe("a check marginal within the gauges' uncertainty", () => {
   test("at the box's edge (28 × 1.05 + 0.5 m) the message says missed as read, and the point that meets 2B with its numbers", () => {
     const r = atHead(28 * 1.05 + U);
     expect(r.verdict).toBe("marginal");
-    expect(r.message).toMatch(/^Delivered point is outside every grade checked \(head 6\.8 % from curve\) as read; within the readings' uncertainty \(flow ± 0\.0 %, head ± ⟦head\|0\.5\d*⟧\) ⟦flow\|0\.012⟧ at ⟦head\|29\.4\d*⟧ meets it \(head arm of the tolerance cross; see the notes on the working\)$/);
+    expect(r.message).toMatch(/^Delivered point is outside every grade checked \(head \+6\.8 % from curve\) as read; within the readings' uncertainty \(flow ± 0\.0 %, head ± ⟦head\|0\.5\d*⟧\) ⟦flow\|0\.012⟧ at ⟦head\|29\.4\d*⟧ meets it \(head arm of the tolerance cross; see the notes on the working\)$/);
   });
   test("a millionth of a metre past it: a fail, and the engine's sentence alone", () => {
     const r = atHead(28 * 1.05 + U + 1e-6);
     expect(r.verdict).toBe("fail");
-    expect(r.message).toBe("Delivered point is outside every grade checked (head 6.8 % from curve)");
+    expect(r.message).toBe("Delivered point is outside every grade checked (head +6.8 % from curve)");
   });
   test("marginal on both counts (the cross within the uncertainty, the power within its accuracy): the message says both", () => {
     // 1B at the power knot (25 m at 15 L/s): head +3 % + 0.4 m misses the ±3 % head arm as read, meets it within 0.5 m;

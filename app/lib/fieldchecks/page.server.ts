@@ -8,6 +8,7 @@ import type { UnitChoice } from "../shared/units";
 import { blankFields, DEFAULT_GRADE, type CheckFields } from "./form";
 import { checkHistory, getFieldCheck } from "./records.server";
 import { unreadableCheckText } from "./stored-check";
+import { crossSummary } from "./cross";
 import { settingText, settingToken } from "../projects/setting-step";
 
 export async function checkPage(viewer: Viewer, selectionId: number, unitSystem: UnitChoice, amendParam: string) {
@@ -71,6 +72,8 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
         flow: check.result.delivered.flow,
         head: check.result.delivered.head,
         flowSource: check.result.engine.flowSource,
+        /** The verdict's rule and numbers on flow and head (quantity tokens, rendered by the loader), or null. */
+        cross: crossSummary(check.result),
       };
     }),
     fields,

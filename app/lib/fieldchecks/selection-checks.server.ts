@@ -9,6 +9,7 @@ import { gradeRule } from "./form";
 import { powerGradeSummary } from "./power-grade";
 import { unreadableCheckText } from "./stored-check";
 import { verdictNote } from "./result";
+import { crossSummary } from "./cross";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
   return (await checksOf(selection.id)).map((c) => {
@@ -22,6 +23,8 @@ export async function checksOfSelection(selection: Awaited<ReturnType<typeof get
       flowSource: c.result.engine.flowSource,
       verdict: c.verdict,
       rule: gradeRule(c.result.grade),
+      /** The verdict's numbers on flow and head: each arm of the tolerance cross with its allowance (quantity tokens), or null. */
+      cross: crossSummary(c.result),
       /** The grade's power and efficiency limits: met or not with their numbers, or why not judged. */
       power: powerGradeSummary(c.result),
       /** Why no verdict where a flow was measured, or that it was judged on the published part of the curve only (the page's note; quantity tokens), or null. */
