@@ -17,13 +17,13 @@ import { renderUnits, SI_UNITS, US_UNITS } from "./units";
 describe("a range's ends in a refusal", () => {
   it("grouped as fmtInt groups a count, in the unit of the reader: 1,000,000 m and 3,280,840 ft (were 1000000 m, 3280840 ft)", () => {
     expect(fmtInt(1000000)).toBe("1,000,000"); // the app's count formatter, the one these follow
-    expect(renderUnits(outOfRange(LENGTH_RANGE, 2e6), SI_UNITS)).toBe("Length is too high: it takes from 0 to 1,000,000 m; check the value and its unit.");
-    expect(renderUnits(outOfRange(LENGTH_RANGE, 2e6), US_UNITS)).toBe("Length is too high: it takes from 0 to 3,280,840 ft; check the value and its unit.");
-    expect(outOfRange(EXTRA_K_RANGE, 2e4)).toBe("Extra ΣK is too high: it takes from 0 to 10,000; check the value."); // a plain number too
+    expect(renderUnits(outOfRange(LENGTH_RANGE, 2e6), SI_UNITS)).toBe("Length is too high: it takes from 0 to 1\u202f000\u202f000 m, not 2\u202f000\u202f000 m; check the value and its unit.");
+    expect(renderUnits(outOfRange(LENGTH_RANGE, 2e6), US_UNITS)).toBe("Length is too high: it takes from 0 to 3\u202f280\u202f839 ft, not 6\u202f561\u202f680 ft; check the value and its unit.");
+    expect(outOfRange(EXTRA_K_RANGE, 2e4)).toBe("Extra ΣK is too high: it takes from 0 to 10\u202f000, not 20\u202f000; check the value."); // a plain number too
   });
   it("decimals and small ends unchanged: 6.20 mm to 5,000 mm; 0.2441 in to 197 in", () => {
-    expect(renderUnits(rangeText({ ...BORE_RANGE, why: undefined }), SI_UNITS)).toBe("from 6.20 mm to 5,000 mm");
-    expect(renderUnits(rangeText({ ...BORE_RANGE, why: undefined }, 0.244 * 0.0254), US_UNITS)).toBe("from 0.2441 in to 197 in");
+    expect(renderUnits(rangeText({ ...BORE_RANGE, why: undefined }), SI_UNITS)).toBe("from 6.2 mm to 5\u202f000 mm");
+    expect(renderUnits(rangeText({ ...BORE_RANGE, why: undefined }, 0.244 * 0.0254), US_UNITS)).toBe("from 0.2441 in to 196 in");
   });
 });
 
@@ -31,7 +31,7 @@ describe("the editor's bound past the form's magnitude", () => {
   it("±3,280,839,895,013 ft (was ±3280839895013 ft)", () => {
     const base: Record<string, string> = { name: "G", temperature: "68", staticLow: "30", staticHigh: "30", suctionSurfacePressure: "14.696", runCount: "0", suctionStaticHead: "1e30" };
     const r = readSystemForm({ get: (k: string) => base[k] ?? null }, US_UNITS);
-    expect(r.errors.suctionStaticHead).toBe("The suction static head is far outside any pump system: the form takes nothing beyond ±3,280,839,895,013 ft; check the value and its unit.");
+    expect(r.errors.suctionStaticHead).toBe("The suction static head is far outside any pump system: the form takes nothing beyond ±3\u202f280\u202f839\u202f895\u202f013 ft; check the value and its unit.");
   });
 });
 
@@ -39,11 +39,11 @@ describe("other forms and the calculators", () => {
   it("the field check form: “from −101.325 kPa to 100,000 kPa” (was 100000 kPa)", () => {
     const r = parseCheckFields(fieldsForHead(20, 998.2, { sPressure: "-102" }), { kind: "water" });
     expect(r.ok).toBe(false);
-    expect((r as { errors: Record<string, string> }).errors.sPressure).toMatch(/^Suction pressure is too low: the form takes from −101\.325 kPa to 100,000 kPa \(/);
+    expect((r as { errors: Record<string, string> }).errors.sPressure).toMatch(/^Suction pressure is too low: the form takes from −101\.325 kPa to 100\u202f000 kPa \(/);
   });
   it("the calculators: minor_k “must be at most 100,000” (was 100000)", () => {
     const r = calcPipeLoss({ flow_m3s: 0.01, diameter_m: 0.1, length_m: 10, roughness_m: 0.00005, minor_k: 2e5 });
     expect(r.ok).toBe(false);
-    expect((r as { errors: { field: string; message: string }[] }).errors).toContainEqual({ field: "minor_k", message: "must be at most 100,000" });
+    expect((r as { errors: { field: string; message: string }[] }).errors).toContainEqual({ field: "minor_k", message: "must be at most 100\u202f000" });
   });
 });
