@@ -23,7 +23,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, groupThousands } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
@@ -51,7 +51,7 @@ const rate = (r: RateRange) => {
 
 /** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends). */
 const stepFlowRefusal = (x: number) =>
-  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${groupThousands(fmtPctExact(x, [x < 0 ? 0 : MAX_FLOW_FRACTION]))}.`;
+  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${groupThousands(fmtPctSignedExact(x, [x < 0 ? 0 : MAX_FLOW_FRACTION]))}.`;
 /** Life-cycle years not a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS, with the years sent. */
 const yearsRefusal = (x: number) => `Years (life-cycle cost) must be a whole number from ${MIN_LCC_YEARS} to ${MAX_LCC_YEARS}, not ${groupThousands(String(x))}.`;
 
