@@ -80,6 +80,6 @@ describe("a 0 % flow step: no demand, the pump stopped", () => {
     const ok = form("0");
     expect(ok.errors).toEqual({});
     expect(ok.input!.energy!.profile).toEqual([{ flowFraction: 1, hours: 2000 }, { flowFraction: 0, hours: 3000 }]);
-    expect(form("-5").errors["energy.step.1.pct"]).toBe("A step's flow cannot be negative (0 %: no demand, the pump stopped).");
+    expect(form("-5").errors["energy.step.1.pct"]).toBe("A step's flow must be from 0 % (no demand, the pump stopped) to 150 % of the duty flow, not −5.0 %.");
   });
 });

@@ -19,7 +19,7 @@
  */
 import { requireFinite, requireInRange, requirePositive, requireNonNegative, EngineInputError } from "./errors.ts";
 import { STANDARD_ATMOSPHERE } from "./units.ts";
-import { qt, qtExact, qtLimit } from "./quantityText.ts";
+import { qt, qtBound, qtExact } from "./quantityText.ts";
 
 /** A fluid state at one temperature, SI units. */
 export interface Fluid {
@@ -159,7 +159,7 @@ export function waterProperties(temperatureC: number): WaterProperties {
   if (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max) {
     throw new EngineInputError(
       "temperatureC",
-      `water properties cover ${qtLimit("temperature", WATER_RANGE_C.min, [temperatureC])}–${qtLimit("temperature", WATER_RANGE_C.max, [temperatureC])} (got ${qtExact("temperature", temperatureC, [WATER_RANGE_C.min, WATER_RANGE_C.max])}); use a user-defined fluid`, // the value read apart from the ends it is outside (100.04 °C never "100 °C")
+      `water properties cover ${qtBound("temperature", WATER_RANGE_C.min, [temperatureC], "min")}–${qtBound("temperature", WATER_RANGE_C.max, [temperatureC], "max")} (got ${qtExact("temperature", temperatureC, [WATER_RANGE_C.min, WATER_RANGE_C.max])}); use a user-defined fluid`, // the value read apart from the ends it is outside (100.04 °C never "100 °C")
     );
   }
   const T = temperatureC + 273.15;

@@ -11,6 +11,8 @@
  */
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
+import { boundInward, groupThousands } from "./limitText.ts";
+export { boundInward, groupThousands, THOUSANDS_SPACE } from "./limitText.ts";
 
 /**
  * Matches one token: quantity name (letters), a number as written by {@link qt} (or NaN) and, from
@@ -23,8 +25,12 @@ const LIMIT_MARK = "limit:";
 const ALSO_MARK = "also:";
 /** Marks a {@link qtAboveZero} token (a reading judged by its side of zero), before the values it reads apart from. */
 const ZERO_MARK = "zero:";
-/** Marks the values of a {@link qtBound} token (a range's end in a refusal: a limit, its whole part grouped). */
+/** Marks a {@link qtBound} token (a range's end in a refusal); "bound-min:"/"bound-max:" name the end ({@link boundInward}). */
 const BOUND_MARK = "bound:";
+const BOUND_MARKS = /^bound(?:-(min|max))?:/;
+/** Marks a {@link qtSent} token (a number refused against a range's ends, grouped as they are). */
+const SENT_MARK = "sent:";
+
 /**
  * The smallest step the magnitude rule shows below 1 (three decimals), in the unit shown: a reading judged by its side of
  * zero (NPSHa) that those decimals would show as zero though it is not reads "< 0.001 m" above zero (decision "npshzero").
@@ -57,7 +63,7 @@ export function qt(quantity: Quantity, si: number): string {
 function apartToken(quantity: Quantity, si: number, against: readonly (number | null | undefined)[], mark: string): string {
   if (!Number.isFinite(si)) return qt(quantity, si);
   const others = against.filter((a): a is number => a != null && Number.isFinite(a)).map(String);
-  return `⟦${quantity}|${String(si)}${others.length || mark === BOUND_MARK ? `|${mark}${others.join(",")}` : ""}⟧`; // a bound keeps its mark alone
+  return `⟦${quantity}|${String(si)}${others.length || mark.startsWith("bound") || mark === SENT_MARK ? `|${mark}${others.join(",")}` : ""}⟧`; // a bound keeps its mark alone
 }
 
 /**
@@ -104,14 +110,26 @@ export function qtLimit(quantity: Quantity, si: number, readings: readonly (numb
 }
 
 /**
- * A quantity token for the end of a range a refusal names ("it takes from 0 to 3,280,840 ft"): as {@link qtLimit}, its
- * whole part grouped in thousands as {@link fmtInt} groups a count, so a long limit reads at a glance.
+ * A quantity token for the end of a range a refusal names ("it takes from 0 to 3 280 839 ft"): as {@link qtLimit}, grouped
+ * by spaces and without trailing zeros; with `side`, rounded inward where the unit shown would round it outside the range
+ * (limitText.ts {@link boundInward}), so the number printed, typed back, is taken (decision "inputedge").
  * @param quantity physical quantity of the end and of `readings` (unitless id)
  * @param si the end in SI (temperature in °C)
  * @param readings the values refused against it, in SI (missing or non-finite ones are left out)
+ * @param side which end of the range it is ("min", "max"; unitless)
  */
-export function qtBound(quantity: Quantity, si: number, readings: readonly (number | null | undefined)[]): string {
-  return apartToken(quantity, si, readings, BOUND_MARK);
+export function qtBound(quantity: Quantity, si: number, readings: readonly (number | null | undefined)[], side?: "min" | "max"): string {
+  return apartToken(quantity, si, readings, side ? `bound-${side}:` : BOUND_MARK);
+}
+
+/**
+ * A quantity token for a number refused against a range's ends ("not 3 600 000 000 m³/h"): as {@link qtExact}, grouped as the ends.
+ * @param quantity physical quantity of the value and of `against` (unitless id)
+ * @param si the value sent, in SI (temperature in °C)
+ * @param against the range's ends it is refused against, in SI
+ */
+export function qtSent(quantity: Quantity, si: number, against: readonly (number | null | undefined)[]): string {
+  return apartToken(quantity, si, against, SENT_MARK);
 }
 
 /**
@@ -157,15 +175,6 @@ const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
 const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 /** A whole number with thousands separators, e.g. 12345 → "12,345"; "—" when missing (re-exported by `app/lib/shared/format.ts`). */
 export const fmtInt = (x: number | null | undefined) => (x == null || !Number.isFinite(x) ? "—" : INTEGER.format(x));
-
-/**
- * A number as written (by {@link fmtNum}, {@link fmtNumExact}, or plainly) with its whole part grouped as {@link fmtInt}
- * groups it: "3280840" → "3,280,840", "−1000.5" → "−1,000.5"; "0.244", "4.00e-7" and text that is no number unchanged.
- * @param text the number as written (unitless)
- */
-export function groupThousands(text: string): string {
-  return text.replace(/^([-−]?)(\d{4,})(?=$|[.eE\s])/, (_, sign: string, whole: string) => `${sign}${fmtInt(Number(whole))}`);
-}
 
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
@@ -358,14 +367,15 @@ export function renderQuantities(text: string, units: UnitPreset): string {
     if (raw === "NaN") return "—";
     const x = raw.trim() === "" ? NaN : Number(raw);
     if (!Number.isFinite(x)) return whole;
-    const bound = apart?.startsWith(BOUND_MARK) ?? false;
-    const limit = bound || (apart?.startsWith(LIMIT_MARK) ?? false);
+    const boundMark = apart === undefined ? null : BOUND_MARKS.exec(apart);
+    const sent = apart?.startsWith(SENT_MARK) ?? false;
+    const limit = !!boundMark || (apart?.startsWith(LIMIT_MARK) ?? false);
     const zero = apart?.startsWith(ZERO_MARK) ?? false;
     // qtAlsoIn: "also:mm:0.168,0.17" — the step's unit (one of the quantity's), then the values to read apart from.
     const also = apart?.startsWith(ALSO_MARK) ? /^also:([^:]+):(.*)$/.exec(apart) : null;
     if (apart?.startsWith(ALSO_MARK) && (!also || !UNITS[q].some((d) => d.id === also[1]))) return whole;
-    const list = also ? also[2] : apart === undefined ? undefined : apart.slice(bound ? BOUND_MARK.length : limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
-    const against = list === undefined || ((zero || bound || also) && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
+    const list = also ? also[2] : apart === undefined ? undefined : apart.slice(boundMark ? boundMark[0].length : sent ? SENT_MARK.length : limit ? LIMIT_MARK.length : zero ? ZERO_MARK.length : 0);
+    const against = list === undefined || ((zero || boundMark || sent || also) && list === "") ? [] : list.split(",").map((a) => (a.trim() === "" ? NaN : Number(a)));
     if (!against.every(Number.isFinite)) return whole;
     try {
       if (also) {
@@ -373,7 +383,9 @@ export function renderQuantities(text: string, units: UnitPreset): string {
         return units[q] === also[1] ? shown : `${shown} [${fmtQuantityExact({ ...units, [q]: also[1] }, q, x, against)}]`;
       }
       if (zero) return fmtQuantityAboveZero(units, q, x, against);
-      if (bound) return groupThousands(fmtQuantityExact(units, q, x, against, true));
+      const v = fromSI(q, units[q], x); // a bound: grouped, rounded inward where it names its side (limitText.ts)
+      if (boundMark) return `${groupThousands(boundInward(fmtNumExact(v, against.map((a) => (a === x ? NaN : fromSI(q, units[q], a))), undefined, true), v, boundMark[1] as "min" | "max" | undefined))} ${unitLabel(q, units[q])}`;
+      if (sent) return groupThousands(fmtQuantityExact(units, q, x, against));
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {
       if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written

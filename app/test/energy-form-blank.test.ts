@@ -47,8 +47,8 @@ describe("blank tariff escalation and discount rate", () => {
   test("a rate outside its range is refused at its field with the range, nothing saved (helper \"formedge\")", async () => {
     const r = await save({ "energy.escalation": "100.5", "energy.discount": "-1" });
     expect((r.body as { errors: Record<string, string> }).errors).toEqual({
-      "energy.escalation": "Tariff escalation is too high: it takes from −50 % to 100 % a year; check the value.",
-      "energy.discount": "Discount rate is too low: it takes from 0 % to 100 % a year; check the value.",
+      "energy.escalation": "Tariff escalation is too high: it takes from −50 % to 100 % a year, not 100.5 %; check the value.",
+      "energy.discount": "Discount rate is too low: it takes from 0 % to 100 % a year, not −1.0 %; check the value.",
     });
     expect((await stored()).years).toBe(15); // the save before
   });

@@ -124,7 +124,7 @@ describe("more rows than the form has, and hours past a year: refused, nothing s
     const before = await storedJson(sys.single);
     const a = await post(sys.single, form(base, steps(rows)));
     expect(wrongAnswer(a, { api: false, refusal: false })).toBeNull();
-    expect(JSON.parse(a.text).errors[`energy.step.${at}.hours`]).toMatch(/8784/);
+    expect(JSON.parse(a.text).errors[`energy.step.${at}.hours`]).toMatch(/8\u202f784 h/);
     expect(await storedJson(sys.single)).toBe(before);
   });
   test("8 steps adding to 8784 h exactly: taken", async () => {

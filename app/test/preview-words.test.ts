@@ -38,14 +38,14 @@ describe("fields outside the runs, in plain words with their pointers", () => {
     expect(await refused(without("mode"))).toEqual([{ field: "input.mode", pointer: "/input/mode", message: 'System kind (open or closed loop) is missing: send "open" or "closed-loop".' }]);
   });
   test("a static head left out: the editor's range words (was “Invalid key: Expected \"staticLow\" but received undefined”)", async () => {
-    expect(await refused(without("staticLow"))).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: "Static head at low level is missing; it takes from -1,000 m to 3,000 m." }]);
-    expect(await refused({ ...boosterInput(), staticLow: "ten" })).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: 'Static head at low level must be a number; it takes from -1,000 m to 3,000 m. Sent: "ten".' }]);
+    expect(await refused(without("staticLow"))).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: "Static head at low level is missing; it takes from -1\u202f000 m to 3\u202f000 m." }]);
+    expect(await refused({ ...boosterInput(), staticLow: "ten" })).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: 'Static head at low level must be a number; it takes from -1\u202f000 m to 3\u202f000 m. Sent: "ten".' }]);
   });
   test("a duty that is no object, a duty without its head, a duty past its range", async () => {
     expect(await refused({ ...boosterInput(), duty: "x" })).toEqual([{ field: "input.duty", pointer: "/input/duty", message: 'Duty point must be a group of values or empty (null). Sent: "x".' }]);
-    expect(await refused({ ...boosterInput(), duty: { flow: 0.01 } })).toEqual([{ field: "input.duty.head", pointer: "/input/duty/head", message: "Duty head is missing; it takes from 0.100 m to 5,000 m." }]);
+    expect(await refused({ ...boosterInput(), duty: { flow: 0.01 } })).toEqual([{ field: "input.duty.head", pointer: "/input/duty/head", message: "Duty head is missing; it takes from 0.1 m to 5\u202f000 m." }]);
     expect(await refused({ ...boosterInput(), duty: { flow: 1e6, head: 20 } })).toEqual([
-      { field: "input.duty.flow", pointer: "/input/duty/flow", message: "Duty flow is too high: it takes from 0.036 m³/h to 360,000 m³/h; check the value and its unit. Sent: 3600000000 m³/h." },
+      { field: "input.duty.flow", pointer: "/input/duty/flow", message: "Duty flow is too high: it takes from 0.036 m³/h to 360\u202f000 m³/h, not 3\u202f600\u202f000\u202f000 m³/h; check the value and its unit." },
     ]);
   });
   test("a liquid's name too long, a flow tolerance without its parts", async () => {

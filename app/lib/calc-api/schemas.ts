@@ -56,7 +56,7 @@ export const BODY_FIELD = "(body)";
 const numberMsg = (issue: v.BaseIssue<unknown>) => `must be a number (got ${issue.received})`;
 const finiteMsg = "must be a finite number";
 
-/** A finite number with bounds; `gt` is an exclusive lower bound. Messages carry the unit, the bounds grouped ("100,000"). */
+/** A finite number with bounds; `gt` is an exclusive lower bound. Messages carry the unit, the bounds grouped by spaces ("100 000": engine limitText.ts). */
 function num(o: { unit?: string; min?: number; gt?: number; max?: number }) {
   const u = o.unit ? ` ${o.unit}` : "";
   const n = (x: number) => groupThousands(String(x));

@@ -2,7 +2,7 @@
 // database, no React; the server validates with it and the record page prefills amendments from it.
 // Units convert here, at the edge; everything after this works in SI (Pa, m, m³/s, W, rpm, °C).
 import { fluidTemperatureRangeC, fromSI, STANDARD_ATMOSPHERE, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
-import { fmtPctLimit } from "~/engine/quantityText";
+import { boundInward, fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
 import { groupThousands } from "../shared/format";
 import type { UnitChoice } from "../shared/units";
@@ -203,12 +203,17 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
    * takes, in the unit typed (`word`: the unit's label where the field has no quantity), and `why` a bound is where it is.
    */
   const num = (key: string, label: string, q: Quantity | null, unit: string, opts: { optional?: boolean; min?: number; max?: number; minOpen?: boolean; word?: string; why?: string } = {}): number | null => {
-    // A range's end, its whole part grouped as the app writes counts ("100,000 kPa"; shared/format.ts).
-    const shown = (si: number) => groupThousands(String(Number((q ? fromSI(q, unit, si) : si).toPrecision(6))).replace("-", "−"));
+    // A range's end to 6 significant digits, its whole part grouped by spaces as every limit ("100 000 kPa"; engine
+    // limitText.ts), rounded inward where those digits would put it outside (checked exactly: 100 000 kPa is
+    // 14 503.7738 psi, "14 503.7 psi", not "14 503.8 psi"), so the end typed back as printed is taken (decision "inputedge").
+    const shown = (si: number, side: "min" | "max") => {
+      const v = q ? fromSI(q, unit, si) : si;
+      return groupThousands(boundInward(String(Number(v.toPrecision(6))), v, side, 0)).replace("-", "−");
+    };
     const word = q ? unitLabel(q, unit) : (opts.word ?? "");
     const w = word ? (word === "%" ? " %" : ` ${word}`) : "";
     const range = opts.min !== undefined && opts.max !== undefined
-      ? `${opts.minOpen ? `more than ${shown(opts.min)}${w} and at most` : `from ${shown(opts.min)}${w} to`} ${shown(opts.max)}${w}${opts.why ? ` (${opts.why})` : ""}`
+      ? `${opts.minOpen ? `more than ${shown(opts.min, "min")}${w} and at most` : `from ${shown(opts.min, "min")}${w} to`} ${shown(opts.max, "max")}${w}${opts.why ? ` (${opts.why})` : ""}`
       : null;
     const takes = range ? `: the form takes ${range}` : "";
     // The forms' strict reader (shared/decimal.ts): a decimal point or comma; 1,500 refused as ambiguous.
@@ -248,7 +253,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     const pressure = num(`${p}Pressure`, `the ${side} pressure`, "pressure", pUnit, {
       min: reference === "absolute" ? 0 : -STANDARD_ATMOSPHERE,
       max: 1e8,
-      why: reference === "absolute" ? "an absolute reading is never below zero; up to 1,000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1,000 bar",
+      why: reference === "absolute" ? "an absolute reading is never below zero; up to 1\u202f000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1\u202f000 bar",
     });
     const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" }) ?? 0;
     const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });

@@ -37,19 +37,19 @@ describe("blank means what the hint says", () => {
 });
 
 describe("each rate refused with its field and range, both sides of each end", () => {
-  const ESC = "Tariff escalation is too RANGE: it takes from −50 % to 100 % a year; check the value.";
-  const DISC = "Discount rate is too RANGE: it takes from 0 % to 100 % a year; check the value.";
+  const ESC = "Tariff escalation is too RANGE: it takes from −50 % to 100 % a year, not SENT; check the value.";
+  const DISC = "Discount rate is too RANGE: it takes from 0 % to 100 % a year, not SENT; check the value.";
   it("escalation: −50 and 100 taken; −50.001 and 100.001 refused (was “Escalation at least −50 % a year.” / “at most 100 %”)", () => {
     expect(read({ "energy.escalation": "-50" }).errors).toEqual({});
     expect(read({ "energy.escalation": "100" }).errors).toEqual({});
-    expect(read({ "energy.escalation": "-50.001" }).errors).toEqual({ "energy.escalation": ESC.replace("RANGE", "low") });
-    expect(read({ "energy.escalation": "100.001" }).errors).toEqual({ "energy.escalation": ESC.replace("RANGE", "high") });
+    expect(read({ "energy.escalation": "-50.001" }).errors).toEqual({ "energy.escalation": ESC.replace("RANGE", "low").replace("SENT", "−50.001 %") });
+    expect(read({ "energy.escalation": "100.001" }).errors).toEqual({ "energy.escalation": ESC.replace("RANGE", "high").replace("SENT", "100.001 %") });
   });
   it("discount rate: 0 and 100 taken; −0.001 and 100.001 refused", () => {
     expect(read({ "energy.discount": "0" }).errors).toEqual({});
     expect(read({ "energy.discount": "100" }).errors).toEqual({});
-    expect(read({ "energy.discount": "-0.001" }).errors).toEqual({ "energy.discount": DISC.replace("RANGE", "low") });
-    expect(read({ "energy.discount": "100.001" }).errors).toEqual({ "energy.discount": DISC.replace("RANGE", "high") });
+    expect(read({ "energy.discount": "-0.001" }).errors).toEqual({ "energy.discount": DISC.replace("RANGE", "low").replace("SENT", "−0.001 %") });
+    expect(read({ "energy.discount": "100.001" }).errors).toEqual({ "energy.discount": DISC.replace("RANGE", "high").replace("SENT", "100.001 %") });
   });
   it("no number (1e400, NaN, Infinity, abc) names the range too", () => {
     for (const typed of ["1e400", "NaN", "Infinity", "abc"]) {

@@ -23,11 +23,12 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtNumExact, fmtPct, fmtPctLimit } from "~/engine/quantityText";
+import { fmtNumExact, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { lccRangeNote } from "./lcc-range-note";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
+import { HOURS_IN_YEAR, yearHoursRefusal } from "./year-hours";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import { minFlowOnCycle } from "./verdict-min-flow";
@@ -49,10 +50,16 @@ const rate = (r: RateRange) => {
   return v.pipe(v.number(words), v.check((x) => Number.isFinite(x) && x >= r.min && x <= r.max, words));
 };
 
+/** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends). */
+const stepFlowRefusal = (x: number) =>
+  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${groupThousands(fmtPctSignedExact(x, [x < 0 ? 0 : MAX_FLOW_FRACTION]))}.`;
+/** Life-cycle years not a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS, with the years sent. */
+const yearsRefusal = (x: number) => `Years (life-cycle cost) must be a whole number from ${MIN_LCC_YEARS} to ${MAX_LCC_YEARS}, not ${groupThousands(String(x))}.`;
+
 export const DutyStepSchema = v.object({
   // 0 %: hours with the system at zero demand, the pump stopped (engine dutyCycle.ts `no-demand`).
-  flowFraction: v.pipe(num("Flow fraction"), v.minValue(0, "A step's flow cannot be negative (0 %: no demand, the pump stopped)."), v.maxValue(MAX_FLOW_FRACTION, "A step's flow is at most 150 % of the duty flow.")),
-  hours: v.pipe(num("Hours"), v.minValue(0, "Hours cannot be negative."), v.maxValue(8784, "A year has at most 8784 hours (a leap year: 366 days × 24 h).")),
+  flowFraction: v.pipe(num("Flow fraction"), v.check((x) => x >= 0 && x <= MAX_FLOW_FRACTION, (i) => stepFlowRefusal(i.input))),
+  hours: v.pipe(num("Hours"), v.check((x) => x >= 0 && x <= HOURS_IN_YEAR, (i) => yearHoursRefusal("Hours of a step", i.input))),
 });
 
 export const EnergySettingsSchema = v.pipe(
@@ -61,7 +68,7 @@ export const EnergySettingsSchema = v.pipe(
     /** Null: the common-practice circulator profile over the system's operating hours. */
     profile: v.nullable(v.pipe(v.array(DutyStepSchema), v.minLength(1, "Give at least one step, or use the common-practice profile."), v.maxLength(MAX_PROFILE_STEPS, `At most ${MAX_PROFILE_STEPS} steps.`))),
     /** Life-cycle cost: years, tariff escalation and discount rate per year (fractions). */
-    years: v.pipe(num("Years"), v.integer("Years are whole."), v.minValue(MIN_LCC_YEARS, `At least ${MIN_LCC_YEARS} year.`), v.maxValue(MAX_LCC_YEARS, `At most ${MAX_LCC_YEARS} years.`)),
+    years: v.pipe(num("Years"), v.check((x) => Number.isInteger(x) && x >= MIN_LCC_YEARS && x <= MAX_LCC_YEARS, (i) => yearsRefusal(i.input))),
     escalation: rate(ESCALATION_RANGE),
     discountRate: rate(DISCOUNT_RANGE),
   }),
@@ -83,8 +90,8 @@ export const EnergySettingsSchema = v.pipe(
   }),
 );
 
-/** Hours in a year at most: a leap year, 366 days × 24 h. */
-export const HOURS_PER_YEAR_MAX = 366 * 24;
+/** Hours in a year at most: a leap year, 366 days × 24 h (year-hours.ts). */
+export const HOURS_PER_YEAR_MAX = HOURS_IN_YEAR;
 /**
  * A running total of hours is past the year only beyond 1e-9 of it (about 32 ms), the engine's own tolerance (dutyCycle.ts):
  * steps typed in hundredths that add up to 8784 h exactly sum in binary to 8784.000000000002 h.
@@ -96,7 +103,7 @@ export function stepPastYear(profile: readonly { hours: number }[]): number {
   return profile.findIndex((x) => pastYear((t += x.hours)));
 }
 /** Hours to 2 decimals; a total past the year with the decimals that set it apart from 8784 h (never "8784 h, more than … 8784 h"). */
-const hoursText = (h: number) => `${pastYear(h) && Number(h.toFixed(2)) <= HOURS_PER_YEAR_MAX ? fmtNumExact(h, [HOURS_PER_YEAR_MAX]) : Number(h.toFixed(2))} h`;
+const hoursText = (h: number) => `${groupThousands(String(pastYear(h) && Number(h.toFixed(2)) <= HOURS_PER_YEAR_MAX ? fmtNumExact(h, [HOURS_PER_YEAR_MAX]) : Number(h.toFixed(2))))} h`;
 /** Why the steps do not fit in a year, with the rule and the numbers (k: the step where the running total passes it). */
 export function stepsOverYear(profile: readonly { hours: number }[], k: number): string {
   const total = profile.reduce((t, x) => t + x.hours, 0);

@@ -1,5 +1,7 @@
 // The life-cycle cost's rates at the edges of what the system form takes: each rate's field and range, and the one way a
-// refusal of one is worded (the form, energy-form.ts, and the schema, energy.ts, say the same). Pure.
+// refusal of one is worded (the form, energy-form.ts, and the schema, energy.ts, say the same): the field, the range and
+// the rate sent, grouped as every range's ends (decision "inputedge"). Pure.
+import { fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 
 /** A life-cycle rate's field and range, fractions a year (our rules): the form and the schema refuse in the same words. */
 export type RateRange = { label: string; min: number; max: number };
@@ -8,8 +10,9 @@ export const DISCOUNT_RANGE: RateRange = { label: "Discount rate", min: 0, max: 
 const pctText = (x: number) => `${String(Math.round(x * 1e6) / 1e4).replace("-", "−")} %`;
 /** "from −50 % to 100 % a year". */
 export const rateRangeText = (r: RateRange) => `from ${pctText(r.min)} to ${pctText(r.max)} a year`;
-/** A rate (fraction a year; null: not a number) refused, naming its field and range. */
+/** A rate (fraction a year; null: not a number) refused, naming its field, its range and the rate sent. */
 export function rateRefusal(r: RateRange, x: number | null): string {
   if (x === null || !Number.isFinite(x)) return `${r.label} must be a number; it takes ${rateRangeText(r)}.`;
-  return `${r.label} is too ${x < r.min ? "low" : "high"}: it takes ${rateRangeText(r)}; check the value.`;
+  const sent = groupThousands(fmtPctSignedExact(x, [x < r.min ? r.min : r.max]));
+  return `${r.label} is too ${x < r.min ? "low" : "high"}: it takes ${rateRangeText(r)}, not ${sent}; check the value.`;
 }

@@ -5,7 +5,6 @@
 // head or the duty is refused as the editor refuses it, with its range in the caller's units (duty-ranges.ts, `outOfRange`).
 // Our schemas' own sentences are kept. Pure.
 import type * as v from "valibot";
-import { qtExact } from "~/engine/quantityText";
 import { ENTRY_RANGES, inside } from "./duty-ranges";
 import { outOfRange, rangeText } from "./run-ranges";
 import { docPathLabel, limitWords, storedText, typeWords, type DocWords } from "./stored-doc";
@@ -51,9 +50,10 @@ export function previewMessage(issue: v.BaseIssue<unknown>, path: readonly (stri
   // the static head at high level below the one at low level).
   if (r && missing) return `${r.label} is missing; it takes ${rangeText(r)}.`;
   if (r && !(typeof value === "number" && Number.isFinite(value) && inside(r, value))) {
-    // The number sent with the decimals that tell it from the ends (−1000.01 m never reads as the −1,000 m it is below).
-    const sent = typeof value === "number" && Number.isFinite(value) && r.q ? qtExact(r.q, value, [value < r.min ? r.min : r.max]) : sentText(issue, value, last);
-    return `${outOfRange(r, typeof value === "number" ? value : null)} Sent: ${sent}.`;
+    // A number: `outOfRange` names it, grouped as the ends and with the decimals that tell it from them (−1000.01 m never
+    // reads as the −1 000 m it is below); anything else is said as sent.
+    if (typeof value === "number" && Number.isFinite(value)) return outOfRange(r, value);
+    return `${outOfRange(r, null)} Sent: ${sentText(issue, value, last)}.`;
   }
   if (!issue.message.startsWith("Invalid ")) return issue.message; // our own sentence
   const label = capital(docPathLabel(keys, WORDS));

@@ -2,7 +2,7 @@
 // the unit it is read in (quantity tokens, rendered by whoever shows the words: the editor in the user's units, the API in
 // the caller's). Pure: the schema (system-input.ts), the editor's form (system-form.ts) and the preview API say the same.
 import { PIPE_TABLES, type Quantity } from "~/engine";
-import { qtBound } from "~/engine/quantityText";
+import { fmtNumExact, qtBound, qtSent } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { groupThousands } from "../shared/format";
 
@@ -42,20 +42,38 @@ export const boreTaken = (d: number) => d >= MIN_BORE * (1 - SHOWN_PRECISION) &&
 const plain = (x: number) => groupThousands(String(x).replace("-", "−"));
 
 /**
+ * Whether `x` (SI) is inside `r`, to 1 part in 10⁹ of the end: an end typed as the refusal shows it in another unit comes
+ * back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6 m³/s), and is taken.
+ */
+export const inside = (r: NumberRange, x: number) => x >= r.min - 1e-9 * Math.abs(r.min) && x <= r.max + 1e-9 * Math.abs(r.max);
+
+/**
  * "from A to B (why)": the ends as tokens, each told apart from `value` where it would read the same, their whole parts
- * grouped in thousands as the app writes counts ("from 0 to 1,000,000 m"; `qtBound`, `groupThousands`).
+ * grouped in thousands by spaces ("from 0 to 1 000 000 m"; `qtBound`, `groupThousands`), each rounded inward where the
+ * unit shown would round it outside (1000 km: "3 280 839 ft"), so an end typed back as printed is taken (decision "inputedge").
  */
 export function rangeText(r: NumberRange, value?: number | null): string {
   const against = value != null && Number.isFinite(value) && Math.abs(value) <= MAX_MAGNITUDE ? [value] : [];
-  const end = (x: number) => (r.q && x !== 0 ? qtBound(r.q, x, against) : plain(x)); // zero needs no unit: "from 0 to 50.0 mm"
-  return `from ${end(r.min)} to ${end(r.max)}${r.why ? ` (${r.why})` : ""}`;
+  // Zero needs no unit ("from 0 to 50 mm"), but 0 °C does: it is 32 °F.
+  const end = (x: number, side: "min" | "max") => (r.q && (x !== 0 || r.q === "temperature") ? qtBound(r.q, x, against, side) : plain(x));
+  return `from ${end(r.min, "min")} to ${end(r.max, "max")}${r.why ? ` (${r.why})` : ""}`;
 }
 
 /**
- * The refusal of a value outside `r` (null or not finite: not a number), naming the field and the range it takes:
- * "Length is too high: it takes from 0 to 1,000,000 m; check the value and its unit."
+ * The number refused, grouped as the ends are and told apart from the end it is past: ", not 2 000 000 m"; nothing for a
+ * number past the form's magnitude (the editor's stand-in for one that would overflow in SI; its field shows it as typed).
+ */
+function notText(r: NumberRange, value: number): string {
+  if (!(Math.abs(value) <= MAX_MAGNITUDE)) return "";
+  const end = value < r.min ? r.min : r.max;
+  return `, not ${r.q ? qtSent(r.q, value, [end]) : groupThousands(fmtNumExact(value, [end]).replace("-", "−"))}`;
+}
+
+/**
+ * The refusal of a value outside `r` (null or not finite: not a number), naming the field, the range it takes and the
+ * number refused: "Length is too high: it takes from 0 to 1 000 000 m, not 2 000 000 m; check the value and its unit."
  */
 export function outOfRange(r: NumberRange, value: number | null): string {
   if (value === null || !Number.isFinite(value)) return `${r.label} must be a number; it takes ${rangeText(r)}.`;
-  return `${r.label} is too ${value < r.min ? "low" : "high"}: it takes ${rangeText(r, value)}; check the value${r.q ? " and its unit" : ""}.`;
+  return `${r.label} is too ${value < r.min ? "low" : "high"}: it takes ${rangeText(r, value)}${notText(r, value)}; check the value${r.q ? " and its unit" : ""}.`;
 }

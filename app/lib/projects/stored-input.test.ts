@@ -29,7 +29,7 @@ describe("readStoredInput", () => {
     expect(problems(JSON.stringify(noMargin))[0]).toMatchObject({ label: "NPSH margin ratio", message: "Missing from the stored document.", stored: null });
   });
   test("the schema's own sentences are kept, the stored number as a quantity token (rendered in the reader's units)", () => {
-    expect(problems(doc({ temperatureC: 350 }))[0]).toMatchObject({ label: "temperature", message: "Temperature above ⟦temperature|300⟧?", stored: "⟦temperature|350⟧" }); // schema: at most 300 °C
+    expect(problems(doc({ temperatureC: 350 }))[0]).toMatchObject({ label: "temperature", message: "Temperature is too high: it takes from ⟦temperature|-50|bound-min:350⟧ to ⟦temperature|300|bound-max:350⟧, not ⟦temperature|350|sent:300⟧; check the value and its unit.", stored: "⟦temperature|350⟧" }); // schema: at most 300 °C
   });
   test("a roughness not below half its run's inner diameter (ε ≥ D/2, the bore closed: engine system.ts) is named at the run and field, with the value stored there", () => {
     const runs = defaultSystemInput().runs.map((r) => ({ ...r }));
@@ -73,7 +73,7 @@ test("editorInput: numbers as stored (out of range too), anything else blank (Na
   const unreadable = editorInput(undefined); // text that was not JSON: nothing read, nothing filled in (not even the schema's defaults)
   expect([unreadable.temperatureC, unreadable.energy.years, unreadable.flowTolerance.plus, unreadable.runs.length, unreadable.duty]).toEqual([NaN, NaN, NaN, 0, null]);
   const fields = problemFieldErrors(problems(JSON.stringify(raw)));
-  expect(fields.temperature).toBe("Temperature above ⟦temperature|300⟧? Stored: ⟦temperature|350⟧.");
-  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number; it takes from ⟦diameter|0.0062|bound:⟧ to ⟦diameter|5|bound:⟧ (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6). Stored: "DN100".');
+  expect(fields.temperature).toBe("Temperature is too high: it takes from ⟦temperature|-50|bound-min:350⟧ to ⟦temperature|300|bound-max:350⟧, not ⟦temperature|350|sent:300⟧; check the value and its unit. Stored: ⟦temperature|350⟧.");
+  expect(fields["run.1.diameter"]).toBe('Inner diameter must be a number; it takes from ⟦diameter|0.0062|bound-min:⟧ to ⟦diameter|5|bound-max:⟧ (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6). Stored: "DN100".');
   expect(Object.keys(fields)).toContain("staticLow");
 });

@@ -23,9 +23,9 @@ describe("a size not in the chosen pipe table", () => {
     expect(r.errors).toEqual({ "run.0.nominal": "Pick a size from this pipe table." });
   });
   it("a typed bore that is no number keeps its own message alone too; a roughness refused for itself is still said", () => {
-    expect(read({ "run.0.diameter": "abc" }).errors).toEqual({ "run.0.diameter": "Inner diameter must be a number; it takes from 6.20 mm to 5,000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6)." });
+    expect(read({ "run.0.diameter": "abc" }).errors).toEqual({ "run.0.diameter": "Inner diameter must be a number; it takes from 6.2 mm to 5\u202f000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6)." });
     const r = read({ "run.0.diameter": "abc", "run.0.roughness": "-1" });
-    expect(r.errors["run.0.roughness"]).toBe("Roughness is too low: it takes from 0 to 50.0 mm; check the value and its unit."); // with its range (run-ranges.ts)
+    expect(r.errors["run.0.roughness"]).toBe("Roughness is too low: it takes from 0 to 50 mm, not -1.00 mm; check the value and its unit."); // with its range (run-ranges.ts)
   });
 });
 
@@ -60,7 +60,7 @@ describe("duty-cycle steps past a year", () => {
   it("said on the hours of the step where the total passes 8784 h (a leap year), not on the control mode; the form's row, with a blank row between", () => {
     const r = read(steps);
     expect(r.input).toBeNull();
-    expect(r.errors).toEqual({ "energy.step.2.hours": "The steps add up to 9000 h a year, more than a year has: at most 8784 h, a leap year's 366 days × 24 h. With this step they reach 9000 h; take hours off the steps." });
+    expect(r.errors).toEqual({ "energy.step.2.hours": "The steps add up to 9\u202f000 h a year, more than a year has: at most 8\u202f784 h, a leap year's 366 days × 24 h. With this step they reach 9\u202f000 h; take hours off the steps." });
     expect(read({ ...steps, "energy.step.2.hours": "3784" }).errors).toEqual({}); // 8784 h exactly: a leap year, taken
   });
   it("steps typed in hundredths that add up to 8784 h exactly are taken (their binary sum is 8784.000000000002); 0.001 h more is refused, said apart from 8784 h", () => {
@@ -71,6 +71,6 @@ describe("duty-cycle steps past a year", () => {
     expect(exact.errors).toEqual({});
     expect(exact.input?.energy?.profile?.map((s) => s.hours)).toEqual(hours.map(Number));
     const over = read({ ...six("733.281"), "energy.control": "fixed-speed", "energy.profileKind": "user" });
-    expect(over.errors).toEqual({ "energy.step.5.hours": "The steps add up to 8784.001 h a year, more than a year has: at most 8784 h, a leap year's 366 days × 24 h. With this step they reach 8784.001 h; take hours off the steps." });
+    expect(over.errors).toEqual({ "energy.step.5.hours": "The steps add up to 8\u202f784.001 h a year, more than a year has: at most 8\u202f784 h, a leap year's 366 days × 24 h. With this step they reach 8\u202f784.001 h; take hours off the steps." });
   });
 });

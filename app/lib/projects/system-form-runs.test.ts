@@ -93,7 +93,7 @@ describe("schema refusals placed on the run they came from", () => {
     "run.2.diameter": "6000",
   };
   // In the reader's units (SI: mm for diameters), the range's words (run-ranges.ts).
-  const SCHEMA_SAYS = "Inner diameter is too high: it takes from 6.20 mm to 5,000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6); check the value and its unit.";
+  const SCHEMA_SAYS = "Inner diameter is too high: it takes from 6.2 mm to 5\u202f000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6), not 6\u202f000 mm; check the value and its unit.";
   it("control: nothing removed, the third run's bore is refused at the third run", () => {
     expect(read(three).errors).toEqual({ "run.2.diameter": SCHEMA_SAYS });
   });

@@ -30,19 +30,19 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
   });
   it("refuses hex and binary (Number() would read 0x10 as 16)", () => {
     // With the range it takes (duty-ranges.ts): 1e-5 to 100 m³/s is 0.1585 to 1585032 gpm (1 gpm = 6.30901964e-5 m³/s).
-    expect(read({ dutyFlow: "0x10" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
-    expect(read({ dutyFlow: "0b11" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
+    expect(read({ dutyFlow: "0x10" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1\u202f585\u202f032 gpm.");
+    expect(read({ dutyFlow: "0b11" }).errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1\u202f585\u202f032 gpm.");
   });
   it("keeps the field's own message for 1e309: the cross-field check never overwrites it", () => {
     const r = read({ dutyFlow: "1e309" });
-    expect(r.errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1,585,032 gpm.");
+    expect(r.errors.dutyFlow).toBe("Duty flow must be a number; it takes from 0.159 gpm to 1\u202f585\u202f032 gpm.");
     expect(read({ dutyFlow: "1.5e3" }).errors).toEqual({});
     // A blank flow with a head still gets the cross-field message.
     expect(read({ dutyFlow: "" }).errors.dutyFlow).toBe("Give both duty flow and head, or neither.");
   });
   it("a bad optional field is an error, not its default", () => {
     expect(read({ npshMargin: "abc" }).errors.npshMargin).toBe("The NPSH margin ratio must be a number.");
-    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra ΣK must be a number; it takes from 0 to 10,000."); // the field's label and range (run-ranges.ts)
+    expect(read({ "run.0.extraK": "Infinity" }).errors["run.0.extraK"]).toBe("Extra ΣK must be a number; it takes from 0 to 10\u202f000."); // the field's label and range (run-ranges.ts)
     expect(read({ npshMargin: "" }).input!.npshMargin).toBe(1.1);
   });
   it("load profile and life-cycle fields: an ambiguous number is refused on its field, its pair message does not replace it", () => {
@@ -59,11 +59,11 @@ describe("readSystemForm: water outside the range its properties cover (engine f
     const hot = read({ temperature: "100.1" }, SI_UNITS);
     expect(hot.input).toBeNull();
     // The range's ends as typed ("0 °C", not "0.000 °C"), the value typed apart from them (100.1, not 100).
-    expect(hot.errors.temperature).toBe("Water is covered from 0 °C to 100 °C (the range its properties are computed for), not 100.1 °C: for a temperature outside it, describe the liquid as a user-defined fluid.");
+    expect(hot.errors.temperature).toBe("Temperature is too high: it takes from 0 °C to 100 °C (water's properties are computed for this range only; for a temperature outside it, describe the liquid as a user-defined fluid), not 100.1 °C; check the value and its unit.");
     // In °F: 0 °C = 32 °F, 100 °C = 212 °F (definition of the Fahrenheit scale); 213 °F typed.
-    expect(read({ temperature: "213" }).errors.temperature).toBe("Water is covered from 32 °F to 212 °F (the range its properties are computed for), not 213 °F: for a temperature outside it, describe the liquid as a user-defined fluid.");
+    expect(read({ temperature: "213" }).errors.temperature).toBe("Temperature is too high: it takes from 32 °F to 212 °F (water's properties are computed for this range only; for a temperature outside it, describe the liquid as a user-defined fluid), not 213 °F; check the value and its unit.");
     expect(read({ temperature: "100" }, SI_UNITS).input!.temperatureC).toBe(100);
-    expect(read({ temperature: "-0.1" }, SI_UNITS).errors.temperature).toMatch(/^Water is covered/);
+    expect(read({ temperature: "-0.1" }, SI_UNITS).errors.temperature).toMatch(/^Temperature is too low: it takes from 0 °C to 100 °C \(water's/);
     const oil = read({ temperature: "120", fluidKind: "custom", fluidName: "Thermal oil", density: "900", viscosity: "0.01", vaporPressure: "0" }, SI_UNITS);
     expect(oil.errors).toEqual({});
     expect(oil.input!.temperatureC).toBe(120);

@@ -1,8 +1,8 @@
 // The system editor's form codec: SystemInput (SI) ⇄ form fields in the user's units.
 // Pure, so the server reads the posted form and the browser reads the same form while typing.
 import * as v from "valibot";
-import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, WATER_RANGE_C, type Quantity } from "~/engine";
-import { qtExact, qtPair } from "~/engine/quantityText";
+import { DEFAULT_FLOW_TOLERANCE, fromSI, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, toSI, type Quantity } from "~/engine";
+import { boundInward, qtPair } from "~/engine/quantityText";
 import { countField, decimalField, decimalMessage, readDecimal } from "../shared/decimal";
 import { fmtNum, labelOf, renderDeep, renderUnits, unitOf, type UnitChoice } from "../shared/units";
 import { groupThousands } from "../shared/format";
@@ -12,6 +12,7 @@ import { MAX_FITTING_COUNT, MAX_MAGNITUDE, MAX_RUNS, newRun, roughnessFits, roug
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, rangeText, ROUGHNESS_RANGE, SHOWN_PRECISION, type NumberRange } from "./run-ranges";
 import { DUTY_FLOW_RANGE, DUTY_HEAD_RANGE, inside, STATIC_HIGH_RANGE, STATIC_LOW_RANGE } from "./duty-ranges";
 import { storedBoreOr, storedSizesKept } from "./stored-sizes";
+import { waterTemperatureProblem } from "./temperature-range";
 
 /** Fittings offered in the editor: every fitting of app/engine/fittings.ts (system-form-fittings.test.ts), so none is lost on a save. */
 export const EDITOR_FITTINGS = [
@@ -56,7 +57,9 @@ function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { option
   const u = opts.unit;
   const si = u ? typedToSI(u.q, unitOf(u.sys, u.q), n) : n;
   if (!(Math.abs(si) <= MAX_MAGNITUDE)) {
-    const bound = `${groupThousands(fmtNum(u ? Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)) : MAX_MAGNITUDE))}${u ? ` ${labelOf(u.sys, u.q)}` : ""}`; // grouped: "3,280,839,895,013 ft"
+    // Grouped by spaces and rounded down (checked exactly), so the bound typed back is taken: "3 280 839 895 013 ft".
+    const end = u ? Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)) : MAX_MAGNITUDE;
+    const bound = `${groupThousands(boundInward(fmtNum(end), end, "max", 0))}${u ? ` ${labelOf(u.sys, u.q)}` : ""}`;
     errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: the form takes nothing beyond ±${bound}; check the value${u ? " and its unit" : ""}.`;
     return null;
   }
@@ -277,14 +280,11 @@ export function readSystemForm(f: FormLike, sys: UnitChoice, stored: StoredForFo
     },
     energy: readEnergyForm(f, errors, stored.energy, formStep), // no energy fields posted: the stored settings
   };
-  // Water's properties are tabulated for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
-  // evaluation error after it is saved. (Checked here, not in the schema: a stored system that no longer parsed would need
-  // review before anything is computed from it, stored-input.ts.)
-  if (raw.fluid.kind === "water" && (temperatureC < WATER_RANGE_C.min || temperatureC > WATER_RANGE_C.max)) {
-    // The range's ends as typed in the user's unit ("0 °C", "32 °F"; a token would read "0.000 °C").
-    const end = (c: number) => `${show(sys, "temperature", c)} ${labelOf(sys, "temperature")}`;
-    errors.temperature ??= `Water is covered from ${end(WATER_RANGE_C.min)} to ${end(WATER_RANGE_C.max)} (the range its properties are computed for), not ${qtExact("temperature", temperatureC, [WATER_RANGE_C.min, WATER_RANGE_C.max])}: for a temperature outside it, describe the liquid as a user-defined fluid.`;
-  }
+  // Water's properties are computed for 0–100 °C (engine: fluids.ts): said at the field when the form is sent, not as an
+  // evaluation error after it is saved — in the words the preview API and every save refuse it in (temperature-range.ts).
+  // (Not in the stored schema: a stored system that no longer parsed would need review before anything is computed from it.)
+  const water = waterTemperatureProblem(raw.fluid.kind, temperatureC);
+  if (water) errors.temperature ??= water;
   const r = v.safeParse(SystemInputSchema, raw);
   if (!r.success) {
     for (const issue of r.issues) {

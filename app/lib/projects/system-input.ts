@@ -9,6 +9,8 @@ import { qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, ROUGHNESS_RANGE, type NumberRange } from "./run-ranges";
 import { dutyRangeProblems } from "./duty-ranges";
+import { LIQUID_TEMPERATURE_RANGE, waterTemperatureProblem } from "./temperature-range";
+import { HOURS_IN_YEAR, yearHoursRefusal } from "./year-hours";
 
 // Largest magnitude of any number in a system, SI, as of any number typed (shared/decimal.ts).
 export { MAX_MAGNITUDE };
@@ -19,10 +21,11 @@ const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be
 /**
  * A number within `r` (above zero instead of from `r.min` where `aboveZero`), every refusal in the words naming the field and
  * its range (run-ranges.ts). Value actions, not `check`: the editor sets aside a run's checks against a bore it could not read.
+ * Each end to 1 part in 10⁹, as `inside`: an end printed in another unit and typed back is taken (decision "inputedge").
  */
 const ranged = (r: NumberRange, aboveZero = false) => {
   const words = (i: { input: unknown }) => outOfRange(r, typeof i.input === "number" ? i.input : null);
-  return v.pipe(v.number(words), v.finite(words), aboveZero ? v.gtValue(0, words) : v.minValue(r.min, words), v.maxValue(r.max, words));
+  return v.pipe(v.number(words), v.finite(words), aboveZero ? v.gtValue(0, words) : v.minValue(r.min - 1e-9 * Math.abs(r.min), words), v.maxValue(r.max + 1e-9 * Math.abs(r.max), words));
 };
 /** A text field of a run: one message for the wrong type and for the length, with the limit. */
 const text = (max: number, words: string) => v.pipe(v.string(words), v.maxLength(max, words));
@@ -114,7 +117,7 @@ const systemInputObject = <R extends typeof PipeRunSchema | typeof FrozenPipeRun
       vaporPressure: nonNeg("Vapour pressure"), // Pa
     }),
   ]),
-  temperatureC: v.pipe(num("Temperature"), v.minValue(-50, `Temperature below ${qt("temperature", -50)}?`), v.maxValue(300, `Temperature above ${qt("temperature", 300)}?`)),
+  temperatureC: ranged(LIQUID_TEMPERATURE_RANGE), // °C; water 0 to 100 where entered (temperature-range.ts)
   mode: v.picklist(["open", "closed-loop"]),
   /** Discharge surface minus suction surface elevation, least and most lift, m. */
   staticLow: num("Static head (low level)"),
@@ -131,7 +134,7 @@ const systemInputObject = <R extends typeof PipeRunSchema | typeof FrozenPipeRun
   duty: v.nullable(v.object({ flow: pos("Duty flow"), head: pos("Duty head") })),
   /** Largest flow drawn, m³/s (0: from the duty). */
   flowMax: nonNeg("Largest flow"),
-  hoursPerYear: v.pipe(nonNeg("Operating hours"), v.maxValue(8784, "A year has at most 8784 hours (a leap year: 366 days × 24 h).")),
+  hoursPerYear: v.pipe(num("Operating hours"), v.check((x) => x >= 0 && x <= HOURS_IN_YEAR, (i) => yearHoursRefusal("Operating hours", i.input))),
   tariffPerKWh: nonNeg("Energy tariff"),
   /** Required NPSH margin ratio NPSHa/NPSHr (dimensionless). */
   npshMargin: v.pipe(num("NPSH margin"), v.minValue(1, "The NPSH margin ratio is at least 1.")),
@@ -176,6 +179,8 @@ export const SystemInputEntrySchema = v.pipe(
   v.rawCheck(({ dataset, addIssue }) => {
     if (!dataset.typed) return;
     for (const p of dutyRangeProblems(dataset.value)) addIssue({ message: p.message, path: issuePath(dataset.value, p.keys) });
+    const water = waterTemperatureProblem(dataset.value.fluid.kind, dataset.value.temperatureC); // at the field, as the editor
+    if (water) addIssue({ message: water, path: issuePath(dataset.value, ["temperatureC"]) });
   }),
   v.forward(
     v.check<SystemInput, (i: v.CheckIssue<SystemInput>) => string>(

@@ -52,7 +52,7 @@ describe("readDecimal: refused (product rules)", () => {
     ["1.500,5", "bad"],
     ["1.2.3", "bad"],
     ["1,2,3", "bad"],
-    ["1 500", "bad"], // a space inside
+    ["1 50", "bad"], // a space inside, not a group of three (space groups are taken: decision "inputedge")
     ["1_000", "bad"],
     ["12 m", "bad"],
     ["e3", "bad"],
@@ -71,7 +71,7 @@ describe("readDecimal: refused (product rules)", () => {
   });
 });
 
-describe("readDecimal with spaceGroups (the purchase price only)", () => {
+describe("readDecimal: thousands grouped by spaces, in every field (decision \"inputedge\"; the purchase price took them first)", () => {
   const grouped = (t: string) => {
     const r = readDecimal(t, { spaceGroups: true });
     return r.kind === "number" ? r.value : r.kind;
@@ -85,7 +85,12 @@ describe("readDecimal with spaceGroups (the purchase price only)", () => {
     ["1 23", "bad"], // groups are threes
     ["1 234,567,8", "bad"],
   ])("%j → %s", (text, n) => expect(grouped(text)).toBe(n));
-  it("without the option a space inside is refused", () => expect(value("12 500")).toBe("bad"));
+  it("every field takes them (was refused without the purchase price's option); the option off refuses them", () => {
+    expect(value("12 500")).toBe(12500);
+    expect(value("3\u202f280\u202f839")).toBe(3280839); // a limit as a refusal prints it (engine limitText.ts)
+    const off = readDecimal("12 500", { spaceGroups: false });
+    expect(off.kind).toBe("bad");
+  });
 });
 
 describe("messages", () => {
@@ -97,8 +102,8 @@ describe("messages", () => {
   it("a number out of range keeps 'must be a number'; thousands separators are named", () => {
     expect(decimalMessage(readDecimal("1e309"), "the duty flow")).toBe("The duty flow must be a number: “1e309” is out of range.");
     expect(decimalMessage(readDecimal("abc"), "the duty flow")).toBe("The duty flow must be a number.");
-    expect(decimalMessage(readDecimal("1,500.5"), "the duty flow")).toMatch(/no thousands separators/);
-    expect(decimalMessage(readDecimal("1 500"), "the duty flow")).toMatch(/no thousands separators/);
+    expect(decimalMessage(readDecimal("1,500.5"), "the duty flow")).toBe("The duty flow must be a number with one decimal point or comma, its thousands grouped by spaces in threes or not at all (like 1 500.5 or 1500.5), never by commas or points.");
+    expect(decimalMessage(readDecimal("3,280,840"), "the duty flow")).toMatch(/grouped by spaces in threes or not at all/);
     expect(decimalMessage(readDecimal(""), "the duty flow")).toBe("Enter the duty flow.");
   });
   it("decimalField: blank is null (an error only when required); an error already on the field is kept", () => {

@@ -8,17 +8,19 @@
 //    point, or a comma as written in much of Europe — and an optional exponent (1.5e3), the whole
 //    within the finite range of a double; whitespace around it is trimmed;
 //  - refused: hex/binary/octal prefixes (0x10, 0b11, 0o7: Number() would take them), Infinity, NaN,
-//    digit separators (1_000, 1 500), more than one separator (1,500.5, 1.2.3), an exponent past the
-//    range (1e309 overflows; 1e-400 would silently be 0);
+//    digit separators other than space groups (1_000, 1'500, 1 50), more than one separator (1,500.5, 1.2.3), an
+//    exponent past the range (1e309 overflows; 1e-400 would silently be 0);
 //  - a comma followed by exactly three digits and nothing else (1,500, -12,000) is ambiguous — a
 //    thousands comma or a decimal comma — so it is refused with a message saying how to write either;
 //    1,5 and 12,50 are decimals, and so is 0,500 (no one groups thousands after a lone 0, the CSV
 //    importer's rule too). A point with three digits (1.500, 2.125) stays a decimal point: that is how
 //    fractional inches and feet are typed, and the importer reads dot-thousands only in comma files;
 //  - blank is its own answer: each form decides whether the field is required or what blank means.
-//  - one exception, asked for by a field (`spaceGroups`, the purchase price only, as it was before this
-//    reader): thousands grouped by spaces in threes (2 450,50 and 12 500, the ISO 80000-1 way: a space
-//    is never a decimal separator, so it is not ambiguous); the comma or point after them is the decimal.
+//  - thousands grouped by spaces (space, no-break, narrow no-break, thin) strictly in threes after the first one to
+//    three digits (2 450,50, 12 500, 3 280 839 ft; not 12 50 or 1 5000), the SI Brochure's and ISO 80000-1's way: a
+//    space is never a decimal separator, so it is not ambiguous; the comma or point after them is the decimal. Every
+//    field takes them (decision "inputedge"): the limits a refusal names are written so (engine limitText.ts), and a
+//    limit copied or typed back as printed is read. The purchase price took them first (`spaceGroups`, now the rule).
 //  - counts (fittings of a pipe run, the editor's run count, duty and standby pumps, life-cycle years: `countField`) are
 //    stricter: decimal digits only, the field's minimum (0 unless said) to its maximum; a sign, point, comma, exponent or
 //    prefix is an error, never rounded or dropped.
@@ -44,11 +46,12 @@ export type DecimalText =
 
 /** Reads a form value (anything that is not a string, such as a File, is bad text). */
 export function readDecimal(raw: unknown, opts: { spaceGroups?: boolean } = {}): DecimalText {
+  const spaceGroups = opts.spaceGroups ?? true; // every field: the limits are printed with them (decision "inputedge")
   if (raw == null) return { kind: "blank" };
   if (typeof raw !== "string") return { kind: "bad", text: "", grouped: false };
   let s = raw.trim().replace(/^\u2212/, "-");
   if (s === "") return { kind: "blank" };
-  const groups = opts.spaceGroups ? SPACE_GROUPS.exec(s) : null;
+  const groups = spaceGroups ? SPACE_GROUPS.exec(s) : null;
   if (groups) s = groups[1].replace(/[ \u00a0\u202f\u2009]/g, "") + (groups[2] ?? "");
   const amb = AMBIGUOUS_COMMA.exec(s);
   if (amb) return { kind: "ambiguous", text: s, thousands: `${amb[1]}${amb[2]}${amb[3]}`, decimal: `${amb[1]}${amb[2]}${`.${amb[3]}`.replace(/\.?0+$/, "")}` };
@@ -97,7 +100,7 @@ export function decimalMessage(r: DecimalText, label: string): string {
     case "range":
       return `${L} must be a number: ${quoted(r.text)} is out of range.`;
     case "bad":
-      return r.grouped ? `${L} must be a number with one decimal point or comma and no thousands separators (like 1500.5).` : `${L} must be a number.`;
+      return r.grouped ? `${L} must be a number with one decimal point or comma, its thousands grouped by spaces in threes or not at all (like 1 500.5 or 1500.5), never by commas or points.` : `${L} must be a number.`;
   }
 }
 
