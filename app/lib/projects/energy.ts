@@ -23,12 +23,13 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtNumExact, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
+import { fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { lccRangeNote } from "./lcc-range-note";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
-import { HOURS_IN_YEAR, yearHoursRefusal } from "./year-hours";
+import { HOURS_IN_YEAR, stepPastYear, stepsOverYear, yearHoursRefusal } from "./year-hours";
+export { HOURS_PER_YEAR_MAX, stepPastYear, stepsOverYear } from "./year-hours";
 import { decimalMessage, readDecimal } from "../shared/decimal";
 import { noHeadClause } from "./duty-check";
 import { minFlowOnCycle } from "./verdict-min-flow";
@@ -90,26 +91,6 @@ export const EnergySettingsSchema = v.pipe(
   }),
 );
 
-/** Hours in a year at most: a leap year, 366 days × 24 h (year-hours.ts). */
-export const HOURS_PER_YEAR_MAX = HOURS_IN_YEAR;
-/**
- * A running total of hours is past the year only beyond 1e-9 of it (about 32 ms), the engine's own tolerance (dutyCycle.ts):
- * steps typed in hundredths that add up to 8784 h exactly sum in binary to 8784.000000000002 h.
- */
-const pastYear = (t: number) => t > HOURS_PER_YEAR_MAX * (1 + 1e-9);
-/** The first step where the running total of hours passes a year (HOURS_PER_YEAR_MAX), or −1. */
-export function stepPastYear(profile: readonly { hours: number }[]): number {
-  let t = 0;
-  return profile.findIndex((x) => pastYear((t += x.hours)));
-}
-/** Hours to 2 decimals; a total past the year with the decimals that set it apart from 8784 h (never "8784 h, more than … 8784 h"). */
-const hoursText = (h: number) => `${groupThousands(String(pastYear(h) && Number(h.toFixed(2)) <= HOURS_PER_YEAR_MAX ? fmtNumExact(h, [HOURS_PER_YEAR_MAX]) : Number(h.toFixed(2))))} h`;
-/** Why the steps do not fit in a year, with the rule and the numbers (k: the step where the running total passes it). */
-export function stepsOverYear(profile: readonly { hours: number }[], k: number): string {
-  const total = profile.reduce((t, x) => t + x.hours, 0);
-  const upTo = profile.slice(0, k + 1).reduce((t, x) => t + x.hours, 0);
-  return `The steps add up to ${hoursText(total)} a year, more than a year has: at most ${hoursText(HOURS_PER_YEAR_MAX)}, a leap year's 366 days × 24 h. With this step they reach ${hoursText(upTo)}; take hours off the steps.`;
-}
 export type EnergySettings = v.InferOutput<typeof EnergySettingsSchema>;
 
 /** Example values, to be set per project: 15 years, tariff +3 %/year, discount 5 %/year (common practice orders of magnitude). */
