@@ -54,7 +54,9 @@ export function GradeTable({ highlight }: { highlight?: string }) {
       <p className="mt-1 text-xs text-slate-600">
         ISO 9906's tolerance cross: a point passes a grade when it meets either arm — its head within the head tolerance of the curve's head at the
         measured flow (head arm), or its flow within the flow tolerance of the curve's flow at the measured head (flow arm), the curve taken at the
-        measured speed. “At the tolerance limit”: outside the grade as read, inside it within the gauges' and the flow meter's stated accuracy.
+        measured speed. “At the tolerance limit”: outside the grade as read, inside it within the gauges' and the flow meter's stated accuracy —
+        while that accuracy is no wider than the grade's own tolerance (head: the gauges' in quadrature against the head arm at the
+        curve's head; flow: the meter's against the flow arm). Wider, the readings cannot tell a pass from a fail: no tolerance verdict.
         Where a power was recorded with the motor's efficiency, the grade is met only if, as well, the shaft power (input × motor efficiency) is at
         most the allowance above the curve's at the measured flow, and the pump's efficiency (ρ·g·Q·H / shaft power) at most the allowance below the
         curve's — the efficiency allowance read as a fraction of the curve's efficiency, not percentage points (our reading from memory: verify

@@ -37,6 +37,23 @@ export interface ToleranceGrade {
 
 /** Half-width of the inferred flow band (fraction of the flow) past which the check says to fit a flow meter (common practice). */
 const WIDE_FLOW_BAND = 0.1;
+
+/**
+ * The inferred flow band's half-width as a percentage of the flow, "±12 %", with the decimals that keep it apart from
+ * `WIDE_FLOW_BAND` ("±10.0001 %", never "±10 %" beside the warning that it is wider than ±10 %): the warning and the
+ * check page's band row say the same number.
+ * @param low the band's low flow, m³/s
+ * @param high the band's high flow, m³/s
+ * @param flow the flow inferred from the curve, m³/s (> 0)
+ * @throws EngineInputError when a flow is not finite, one below zero, the flow not above zero, or high below low
+ */
+export function flowBandHalfWidthText(low: number, high: number, flow: number): string {
+  const a = requireNonNegative("low", low);
+  const b = requireNonNegative("high", high);
+  const q = requirePositive("flow", flow);
+  if (b < a) throw new EngineInputError("high", "must be at least the band's low flow");
+  return `±${fmtPctExact((b - a) / 2 / q, [WIDE_FLOW_BAND], 0)}`;
+}
 const ISO = "ISO 9906:2012 acceptance grades (from memory; verify against the standard)";
 
 /** Acceptance grades, tightest first. */
@@ -329,7 +346,7 @@ function fieldCheckInner(input: FieldCheckInput): FieldCheckResult {
   }
   if (low !== null && high !== null && q > 0 && (high - low) / q > 2 * WIDE_FLOW_BAND) {
     // The half-width never reads as the limit it is past ("±10 %" for 10.00001 %), and the rule is said.
-    warnings.push({ code: "wide-flow-band", message: `flat curve: gauge accuracy gives a flow band of ±${fmtPctExact((high - low) / 2 / q, [WIDE_FLOW_BAND], 0)}, wider than ±${fmtPctLimit(WIDE_FLOW_BAND)}; fit a flow meter for a verdict` });
+    warnings.push({ code: "wide-flow-band", message: `flat curve: gauge accuracy gives a flow band of ${flowBandHalfWidthText(low, high, q)}, wider than ±${fmtPctLimit(WIDE_FLOW_BAND)}; fit a flow meter for a verdict` });
   }
   dutyDeviation = dutyDev(q, t.tdh);
   return { tdh: t.tdh, velocityHead: { suction: t.vhs, discharge: t.vhd }, flow: q, flowSource: "inferred-from-curve",

@@ -225,6 +225,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
     gaugeTdh: [[(x) => E.gaugeTdh(gauge(0), gauge(x), 0.01, 998), 2e5, []], [(x) => E.gaugeTdh(gauge(0), gauge(2e5), x, 998), 0.01, [-1]]],
     withinGrade: [[(x) => E.withinGrade(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.withinGrade(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
     gradeCross: [[(x) => E.gradeCross(curve, x, 20, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.gradeCross(curve, 0.01, x, E.TOLERANCE_GRADES[0]), 20, [0, -1]]],
+    flowBandHalfWidthText: [[(x) => E.flowBandHalfWidthText(x, 0.012, 0.01), 0.008, [-1, 0.02]], [(x) => E.flowBandHalfWidthText(0.008, x, 0.01), 0.012, [-1, 0.007]], [(x) => E.flowBandHalfWidthText(0.008, 0.012, x), 0.01, [0, -1]]],
     fieldCheck: [[(x) => E.fieldCheck({ curve, fluid: water, suction: gauge(0), discharge: gauge(2e5), measuredFlow: x }), 0.01, [-1]]],
     gradePower: [[(x) => E.gradePower(curve, x, 20, 998, 3000, E.TOLERANCE_GRADES[0]), 0.01, [-1]], [(x) => E.gradePower(curve, 0.01, x, 998, 3000, E.TOLERANCE_GRADES[0]), 20, []],
       [(x) => E.gradePower(curve, 0.01, 20, x, 3000, E.TOLERANCE_GRADES[0]), 998, [0, -1]], [(x) => E.gradePower(curve, 0.01, 20, 998, x, E.TOLERANCE_GRADES[0]), 3000, [0, -1]],

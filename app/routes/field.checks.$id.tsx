@@ -11,7 +11,8 @@ import { getFieldCheck } from "~/lib/fieldchecks/records.server";
 import { armDeviationText, crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { fmtPctSignedExact } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctSignedExact } from "~/engine/quantityText";
+import { flowBandHalfWidthText } from "~/engine";
 import { Crumbs } from "~/components/Crumbs";
 import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
 
@@ -119,7 +120,7 @@ export default function FieldCheckRecord() {
               <dt className="text-slate-600">Flow band from gauge accuracy</dt>
               <dd>
                 {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)})
-                {band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width ±{fmtNum(((band.high - band.low) / 2 / e.flow) * 100, 0)} % of the flow: the flatter the curve, the wider the band.</span> : null}
+                {band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width {flowBandHalfWidthText(band.low, band.high, e.flow)} of the flow: the flatter the curve, the wider the band.</span> : null}
               </dd>
             </>
           ) : null}
@@ -194,7 +195,7 @@ export default function FieldCheckRecord() {
             suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}
           </dd>
           <dt className="text-slate-600">Flow meter</dt>
-          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtNum(rd.flowAccuracy * 100, 1)} %` : ""}` : "none"}</dd>
+          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}` : ""}` : "none"}</dd>
           <dt className="text-slate-600">Speed</dt>
           <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${rpmApart} rpm` : rpm !== null ? `${rpmApart} rpm` : "not entered"}</dd>
           <dt className="text-slate-600">Power</dt>

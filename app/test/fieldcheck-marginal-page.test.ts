@@ -20,6 +20,8 @@ const RHO20 = fluidAt({ kind: "water" }, 20).density;
 const gaugeKPa = String((0.5 * RHO20 * G0) / Math.SQRT2 / 1000);
 let m: TestMember;
 let id = 0;
+let coarse = 0; // ±1000 kPa gauges on a pump 40 % short: not judged (decision "gaugebound")
+let meter = 0; // a flow meter of ±8 % × (1 + 1e-6), past 2B's ±8 %: not judged
 
 beforeAll(async () => {
   m = await makeMember("admin");
@@ -29,6 +31,12 @@ beforeAll(async () => {
   const p = parseCheckFields(fieldsForHead(28 * 1.05 + 0.3, RHO20, { flow: "0.012", sAccuracy: gaugeKPa, dAccuracy: gaugeKPa }), { kind: "water" });
   if (!p.ok) throw new Error(JSON.stringify(p.errors));
   id = (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  const c = parseCheckFields(fieldsForHead(28 * 0.6, RHO20, { flow: "0.012", sAccuracy: "1000", dAccuracy: "1000" }), { kind: "water" });
+  if (!c.ok) throw new Error(JSON.stringify(c.errors));
+  coarse = (await recordFieldCheck(v, selectionId, { readings: c.readings, fields: c.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  const w = parseCheckFields(fieldsForHead(28 * 1.08, RHO20, { flow: "0.012", flowAccuracy: String(8 * (1 + 1e-6)) }), { kind: "water" });
+  if (!w.ok) throw new Error(JSON.stringify(w.errors));
+  meter = (await recordFieldCheck(v, selectionId, { readings: w.readings, fields: w.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
 });
 
 test("the verdict's sentence on the page: missed as read, and the point within the uncertainty that meets 2B, in units", async () => {
@@ -36,7 +44,24 @@ test("the verdict's sentence on the page: missed as read, and the point within t
   expect(html).toContain('data-verdict="marginal"');
   const said = html.match(/<p class="text-sm">Delivered point[^<]*<\/p>/)?.[0] ?? "(no verdict sentence)";
   // Was: "Delivered point is outside every grade checked (head 6.1 % from curve)." alone beside "at the tolerance limit".
-  expect(said).toMatch(/Delivered point is outside every grade checked \(head \+6\.1 % from curve\) as read; within the readings' uncertainty \(flow ± 0\.0 %, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
+  expect(said).toMatch(/Delivered point is outside every grade checked \(head \+6\.1 % from curve\) as read; within the readings' uncertainty \(flow as read: the meter's accuracy not given, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
   expect(said).not.toContain("⟦");
   expect(html).not.toContain("⟦");
+});
+
+test("±1000 kPa gauges (±144 m) on a pump 40 % short of 28 m: the page says not judged, with both numbers (was 'at the tolerance limit')", async () => {
+  const { html } = await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${coarse}`, { id: String(coarse) });
+  expect(html).toContain('data-verdict="unknown"');
+  const said = html.match(/<p class="text-sm">Delivered point[^<]*<\/p>/)?.[0] ?? "(no verdict sentence)";
+  expect(said).toContain("the readings' uncertainty is wider than the grade's tolerance (head ±144 m against ±1.40 m), so they cannot tell a pass from a fail");
+  const note = html.match(/data-testid="verdict-note">([^<]*)</)?.[1] ?? "(no note)";
+  expect(note).toMatch(/^No tolerance verdict: the readings' uncertainty is wider than the grade's own tolerance — in head ±144 m/);
+  expect(html).not.toContain("⟦");
+});
+
+test("a flow meter of ±8 % × (1 + 1e-6): the readings' row prints ±8.00001 % as the verdict's sentence does (was ±8.0 %)", async () => {
+  const { html } = await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${meter}`, { id: String(meter) });
+  expect(html).toContain('data-verdict="unknown"');
+  expect(html).toContain("(flow ±8.00001 % against ±8 %)");
+  expect(html).toMatch(/Flow meter<\/dt><dd>43\.2 m³\/h ±8\.00001 %<\/dd>/);
 });

@@ -9,6 +9,7 @@ import {
   fieldCheck,
   G0,
   gradePowerWithinAccuracy,
+  headAt,
   gradeWithinUncertainty,
   sampleCurve,
   scaleBySpeed,
@@ -30,6 +31,7 @@ import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } fro
 import type { CheckResult, Pt } from "./result";
 import { crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
+import { uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -86,7 +88,9 @@ function sample(c: PumpCurve, rho: number) {
  * Verdict against one grade. Flow meter: pass if the point is within the grade of the curve at the
  * measured speed; marginal if not, but some point within the reading uncertainty (head ± gauge
  * accuracy, flow ± meter accuracy) is (solved over the whole box: `gradeWithinUncertainty`); fail
- * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade.
+ * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade. (`evaluateCheck` then
+ * gives no tolerance verdict instead of a marginal one where the readings' uncertainty is wider than the grade's own
+ * tolerance: uncertainty-bound.ts.)
  * Then the grade's power and efficiency limits, where the engine judged them (`e.grades`, from a measured shaft
  * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say — unless the power
  * reading's accuracy was entered and some power within it meets them (`powerWithin`, the engine's
@@ -239,9 +243,19 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const endNote = curveEnd ? (curveEnd.reaches ? curveEndJudgedNote(curveEnd, grade.id, grade, readings.flowAccuracy) : curveEndNoVerdict(curveEnd, grade.id, grade, readings.flowAccuracy)) : null;
   if (curveEnd && !curveEnd.reaches) verdict = "unknown";
   if (endNote) warnings.push(endNote);
+  // Marginal within the readings' uncertainty only while it is no wider than the grade's own tolerance (uncertainty-bound.ts):
+  // wider, the box straddles the grade whatever the pump does, so no tolerance verdict, with both numbers.
+  const curveHeadHere = engine.curveHead ?? (within ? headAt(curve, Math.min(Math.max(within.flow, curve.flowMin), curve.flowMax)) : null);
+  const tooWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
+  if (tooWide) {
+    verdict = "unknown";
+    warnings.push(uncertaintyNoVerdict(tooWide, grade, rho));
+  }
   // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
+  // A flow meter's accuracy not given is said so (it was "flow ± 0.0 %"): the flow is taken as read.
+  const flowWords = readings.flowAccuracy > 0 ? `flow ± ${fmtPctExact(readings.flowAccuracy)}` : "flow as read: the meter's accuracy not given";
   const withinWords = within && verdict === "marginal"
-    ? `(flow ± ${fmtPctExact(readings.flowAccuracy)}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
+    ? `(${flowWords}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
     : null;
   if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
@@ -286,6 +300,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     message: speedOutside ? `Delivered point not judged against grade ${grade.id}: the measured speed is outside the range the curve may be translated to (see the warnings)`
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
       : vapourNoVerdict ? `Delivered point not judged against grade ${grade.id}: the suction reading is at or below the liquid's vapour pressure, so it is misread or the pump is cavitating (see the warnings)`
+      : tooWide ? uncertaintyMessage(tooWide)
       : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
       : `${marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
