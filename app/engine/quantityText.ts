@@ -143,7 +143,18 @@ export function qtPair(quantity: Quantity, reading: number, limit: number): [str
 /** Decimals of the magnitude rule (≥100: 0, ≥10: 1, ≥1: 2, else 3). */
 const decimalsFor = (x: number) => (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
 /** Decimals are added to tell a value from its limits until it shows this many significant digits (count; 1 part in 10⁹). */
-const MAX_SIGNIFICANT = 9;
+export const MAX_SIGNIFICANT = 9;
+/**
+ * The rounding allowance of a judged limit (dimensionless, 1 part in 10⁸): a value within it of its limit is at the limit,
+ * further out it is past it. It follows the words' digits: one step of a value's {@link MAX_SIGNIFICANT}th significant
+ * digit is at most 1 part in 10⁸ of it (10^(1 − MAX_SIGNIFICANT), a value written with a leading 1), so a value judged
+ * past its limit by more than this prints apart from the limit beside it ({@link qtExact} with {@link qtLimit} or
+ * {@link qtBound}) in every unit. At 1 part in 10⁹ a value 1–10 parts in 10⁹ past read as its limit: "12.0000000 m³/h <
+ * 12.0 m³/h" in m³/h, "3.33333333 L/s < 3.33333333 L/s" in L/s. Shared by the NPSHr curve's ends (npshrEnds.ts), the maker's
+ * minimum flow (stepPor.ts, lib/projects/verdict-min-flow.ts) and the entry ranges (lib/projects/duty-ranges.ts).
+ * Tests: lib/projects/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts.
+ */
+export const LIMIT_ROUNDING = 1e-8;
 /** The most decimals that show a value and its limits to MAX_SIGNIFICANT digits (count). */
 const maxDecimals = (base: number, values: readonly number[]) => {
   const m = Math.max(...values.map(Math.abs));

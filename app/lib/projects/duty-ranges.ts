@@ -3,6 +3,7 @@
 // form's magnitude, let through. Refused in the words of a pipe run's numbers (run-ranges.ts `outOfRange`: the field and
 // its range in the unit typed). A system stored before them still reads and computes (the stored schema has no range);
 // it is held to them when saved again. Pure.
+import { LIMIT_ROUNDING } from "~/engine/quantityText";
 import { outOfRange, type NumberRange } from "./run-ranges";
 
 // Common practice, from memory: the highest-head pumps built (multistage boiler feed, high-pressure mine dewatering) give
@@ -19,10 +20,12 @@ export const DUTY_FLOW_RANGE: NumberRange = { label: "Duty flow", q: "flow", min
 export const DUTY_HEAD_RANGE: NumberRange = { label: "Duty head", q: "head", min: 0.1, max: 5000 };
 
 /**
- * Whether `x` (SI) is inside `r`, to 1 part in 10⁹ of the end: an end typed as the refusal shows it in another unit comes
- * back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6 m³/s), and is taken.
+ * Whether `x` (SI) is inside `r`, to 1 part in 10⁸ of the end (engine quantityText.ts `LIMIT_ROUNDING`): an end typed as the
+ * refusal shows it in another unit comes back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6
+ * m³/s), and is taken; a number refused prints apart from the end beside it in every unit (at 1 part in 10⁹ a duty flow
+ * 2 parts in 10⁹ under 1e-5 m³/s was refused as "Sent: 0.158503231 gpm" beside "from 0.158503231 gpm").
  */
-export const inside = (r: NumberRange, x: number) => x >= r.min - 1e-9 * Math.abs(r.min) && x <= r.max + 1e-9 * Math.abs(r.max);
+export const inside = (r: NumberRange, x: number) => x >= r.min - LIMIT_ROUNDING * Math.abs(r.min) && x <= r.max + LIMIT_ROUNDING * Math.abs(r.max);
 
 /** Each ranged number of an entered system by its keys in the document, dotted (the preview API's refusals, preview-words.ts). */
 export const ENTRY_RANGES: Readonly<Record<string, NumberRange>> = { staticLow: STATIC_LOW_RANGE, staticHigh: STATIC_HIGH_RANGE, "duty.flow": DUTY_FLOW_RANGE, "duty.head": DUTY_HEAD_RANGE };
