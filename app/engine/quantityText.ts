@@ -151,8 +151,11 @@ export const MAX_SIGNIFICANT = 9;
  * past its limit by more than this prints apart from the limit beside it ({@link qtExact} with {@link qtLimit} or
  * {@link qtBound}) in every unit. At 1 part in 10⁹ a value 1–10 parts in 10⁹ past read as its limit: "12.0000000 m³/h <
  * 12.0 m³/h" in m³/h, "3.33333333 L/s < 3.33333333 L/s" in L/s. Shared by the NPSHr curve's ends (npshrEnds.ts), the maker's
- * minimum flow (stepPor.ts, lib/projects/verdict-min-flow.ts) and the entry ranges (lib/projects/duty-ranges.ts).
- * Tests: lib/projects/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts.
+ * minimum flow (stepPor.ts, lib/projects/verdict-min-flow.ts), the entry ranges (lib/projects/duty-ranges.ts), a duty-cycle
+ * step's head against the system's (dutyCycle.ts), the motor's limit and the IEC table's entries (motor.ts `COVERS_SLACK`,
+ * `motorEfficiency`) and a run's bore against its table's (lib/projects/system-input.ts, preview-input.ts). Not for a limit
+ * its words print as a percentage (fmtPctExact: at most 6 decimals of a per cent, coarser than this near a small limit).
+ * Tests: lib/projects/limit-rounding.test.ts, engine/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts.
  */
 export const LIMIT_ROUNDING = 1e-8;
 /** The most decimals that show a value and its limits to MAX_SIGNIFICANT digits (count). */

@@ -5,7 +5,7 @@ import * as v from "valibot";
 import { fluidAt, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, ROUGHNESS_MAX_OF_DIAMETER, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
 import type { Adjustment } from "./candidate-input";
-import { qt, qtPair } from "~/engine/quantityText";
+import { LIMIT_ROUNDING, qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, ROUGHNESS_RANGE, type NumberRange } from "./run-ranges";
 import { dutyRangeProblems } from "./duty-ranges";
@@ -268,7 +268,8 @@ export const tableMaterial = (pipeTable: string): string | null => PIPE_TABLES.f
 /**
  * A stored run's catalogue size that the catalogue no longer gives as stored (old data: a table or size since removed,
  * or a size whose dimensions were corrected since): the stored inner diameter is what the system is computed with, said
- * with its number and the table's; null when the run names no size or the table gives the stored bore (to 1e-9).
+ * with its number and the table's; null when the run names no size or the table gives the stored bore (to `LIMIT_ROUNDING`,
+ * 1 part in 10⁸, as preview-input.ts: a bore further off prints apart from the table's).
  */
 function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
   if (!r.pipeTable || !r.nominal) return null;
@@ -280,7 +281,7 @@ function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
     const [first, last] = [table.sizes[0].nominal, table.sizes[table.sizes.length - 1].nominal];
     return `${name}: ${table.name} lists no size "${r.nominal}" (its sizes run ${first} to ${last}); ${used}. Check the bore, then pick a size of the table or type the inner diameter.`;
   }
-  if (Math.abs(size.innerDiameter - r.diameter) <= 1e-9 * size.innerDiameter) return null;
+  if (Math.abs(size.innerDiameter - r.diameter) <= LIMIT_ROUNDING * size.innerDiameter) return null;
   const [stored, now] = qtPair("diameter", r.diameter, size.innerDiameter);
   return `${name}: ${table.name} ${r.nominal} has an inner diameter of ${now} in the catalogue now, but the run was saved with ${stored}, which is used. Save the run again to take the table's bore.`;
 }
