@@ -58,7 +58,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
@@ -287,7 +287,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
       // The flow kept apart from both ends (never "20.0 m³/h is outside … –20.0 m³/h").
       if (hp === null) return none("beyond-curve", `${qtExact("flow", q, [curve.flowMin, curve.flowMax])} is outside the pump's curve (${qtLimit("flow", curve.flowMin, [q])}–${qtLimit("flow", curve.flowMax, [q])}) at fixed speed`);
-      if (hp < hSys * (1 - 1e-9)) {
+      // Below the system by more than LIMIT_ROUNDING (1 part in 10⁸, the words' digits): further under, the two heads print apart.
+      if (hp < hSys * (1 - LIMIT_ROUNDING)) {
         const [gives, system] = qtPair("head", hp, hSys); // never read as equal beside "below"
         return none("beyond-curve", `at ${qt("flow", q)} ${pumpGives} ${gives}, ${fmtPctExact(1 - hp / hSys)} below the system's ${system}: a throttled fixed-speed pump cannot reach this flow`, hp, 1);
       }
@@ -309,7 +310,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       if (mode !== "system-curve") {
         // The control curve below the system curve at this flow: not met (see the module comment for why not max(control, system)).
         const hSys = requireFinite("systemHead", input.systemHead(q));
-        if (head < hSys * (1 - 1e-9)) {
+        if (head < hSys * (1 - LIMIT_ROUNDING)) { // as at fixed speed: the two heads print apart
           const fix = mode === "proportional-pressure" ? "raise the set point, or use constant-pressure or system-curve control" : "raise the set point or use system-curve control";
           // Both heads kept apart at their rounding (qtPair), and the shortfall as a percentage (fmtPctExact).
           const [gives, needs] = qtPair("head", head, hSys);

@@ -20,8 +20,27 @@ export function groupThousands(text: string): string {
   return text.replace(/^([-−]?)(\d{4,})(?=$|[.eE\s])/, (_, sign: string, whole: string) => `${sign}${whole.replace(/\B(?=(\d{3})+$)/g, THOUSANDS_SPACE)}`);
 }
 
-/** Relative slack of an end typed as shown in another unit (duty-ranges.ts `inside`: 1 part in 10⁹). */
-const END_SLACK = 1e-9;
+/** Decimals are added to tell a value from its limits until it shows this many significant digits (count; 1 part in 10⁹). */
+export const MAX_SIGNIFICANT = 9;
+/**
+ * The rounding allowance of a judged limit (dimensionless, 1 part in 10⁸): a value within it of its limit is at the limit,
+ * further out it is past it. It follows the words' digits: one step of a value's {@link MAX_SIGNIFICANT}th significant
+ * digit is at most 1 part in 10⁸ of it (10^(1 − MAX_SIGNIFICANT), a value written with a leading 1), so a value judged
+ * past its limit by more than this prints apart from the limit beside it (quantityText.ts `qtExact` with `qtLimit` or
+ * `qtBound`) in every unit. At 1 part in 10⁹ a value 1–10 parts in 10⁹ past read as its limit: "12.0000000 m³/h <
+ * 12.0 m³/h" in m³/h, "3.33333333 L/s < 3.33333333 L/s" in L/s. Shared by the NPSHr curve's ends (npshrEnds.ts), the maker's
+ * minimum flow (stepPor.ts, lib/projects/verdict-min-flow.ts), the entry ranges (lib/projects/duty-ranges.ts), a duty-cycle
+ * step's head against the system's (dutyCycle.ts), the motor's limit and the IEC table's entries (motor.ts `COVERS_SLACK`,
+ * `motorEfficiency`) and a run's bore against its table's (lib/projects/system-input.ts, preview-input.ts). Not for a limit
+ * its words print as a percentage (fmtPctExact: at most 6 decimals of a per cent, coarser than this near a small limit).
+ * Tests: lib/projects/limit-rounding.test.ts, engine/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts.
+ */
+export const LIMIT_ROUNDING = 1e-8;
+/**
+ * Relative slack of an end typed as shown in another unit: the reader's own allowance at a range's end (lib/projects
+ * run-ranges.ts `inside`), {@link LIMIT_ROUNDING}.
+ */
+export const END_SLACK = LIMIT_ROUNDING;
 
 /**
  * A range's end as written in a unit (`text`, by {@link fmtNumExact}), rounded inward where it lies outside the range by

@@ -25,17 +25,17 @@ describe("a largest power at a standard size's boundary", () => {
       for (const sf of SERVICE_FACTORS) {
         const limit = motorLimit(kw * 1000, sf);
         const next = IEC_MOTOR_RATINGS_KW[i + 1];
-        // Just inside (floating-point noise, COVERS_SLACK 1e-9) and just past the boundary.
-        const inside = suggestMotor({ dutyPower: 0, maxCurvePower: limit * (1 + 0.5e-9), serviceFactor: sf });
-        const past = suggestMotor({ dutyPower: 0, maxCurvePower: limit * (1 + 2e-9), serviceFactor: sf });
+        // Just inside (rounding, COVERS_SLACK = quantityText.ts LIMIT_ROUNDING, 1e-8) and just past the boundary.
+        const inside = suggestMotor({ dutyPower: 0, maxCurvePower: limit * (1 + 5e-9), serviceFactor: sf });
+        const past = suggestMotor({ dutyPower: 0, maxCurvePower: limit * (1 + 2e-8), serviceFactor: sf });
         const where = `${kw} kW × ${sf}`;
         expect(inside.rating, where).toBe(kw * 1000);
-        expect(overloadCheck(whole(limit * (1 + 0.5e-9)), motorLimit(inside.rating!, sf)).nonOverloading, where).toBe(true);
+        expect(overloadCheck(whole(limit * (1 + 5e-9)), motorLimit(inside.rating!, sf)).nonOverloading, where).toBe(true);
         // As the page computed it before (rating × service factor, unrounded): the same verdict.
-        expect(overloadCheck(whole(limit * (1 + 0.5e-9)), inside.rating! * sf).nonOverloading, where).toBe(true);
-        expect(overloadCheck(whole(limit * (1 + 2e-9)), limit).nonOverloading, where).toBe(false);
+        expect(overloadCheck(whole(limit * (1 + 5e-9)), inside.rating! * sf).nonOverloading, where).toBe(true);
+        expect(overloadCheck(whole(limit * (1 + 2e-8)), limit).nonOverloading, where).toBe(false);
         expect(past.rating, where).toBe(next === undefined ? null : next * 1000);
-        if (past.rating !== null) expect(overloadCheck(whole(limit * (1 + 2e-9)), motorLimit(past.rating, sf)).nonOverloading, where).toBe(true);
+        if (past.rating !== null) expect(overloadCheck(whole(limit * (1 + 2e-8)), motorLimit(past.rating, sf)).nonOverloading, where).toBe(true);
         flips++;
       }
     });
@@ -43,7 +43,7 @@ describe("a largest power at a standard size's boundary", () => {
   });
   it("past the largest rating (1000 kW, from memory): no suggestion, and the text says by how much; below the smallest: 0.06 kW", () => {
     expect(suggestMotor({ dutyPower: 1e6, maxCurvePower: 1e6 }).rating).toBe(1e6);
-    const over = suggestMotor({ dutyPower: 9e5, maxCurvePower: 1e6 * (1 + 2e-9) });
+    const over = suggestMotor({ dutyPower: 9e5, maxCurvePower: 1e6 * (1 + 2e-8) });
     expect(over.rating).toBeNull();
     expect(inSI(over.basis)).toMatch(/^largest power on the curve to its end 1000\.0+\d* kW \(duty 900 kW\) is above the largest standard rating \(1000 kW\)$/);
     const sf = suggestMotor({ dutyPower: 9e5, maxCurvePower: 1.2e6, serviceFactor: 1.15 });

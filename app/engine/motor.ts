@@ -19,7 +19,7 @@
  *   cost = kWh × tariff in the workspace's currency.
  */
 import { EngineInputError, requireNonNegative, requirePositive, type EngineWarning } from "./errors.ts";
-import { qt, qtExact, qtLimit } from "./quantityText.ts";
+import { LIMIT_ROUNDING, qt, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Standard rated outputs, kW (IEC 60034-1 / IEC 60072-1 series, from memory). */
 export const IEC_MOTOR_RATINGS_KW: readonly number[] = [
@@ -65,10 +65,13 @@ export const IE_EFFICIENCY_TABLE: Record<2 | 4, Record<IeClass, readonly number[
 const LARGEST_RATING = IEC_MOTOR_RATINGS_KW[IEC_MOTOR_RATINGS_KW.length - 1] * 1000;
 
 /**
- * Relative slack in "a motor limit covers a power" (dimensionless): floating-point noise only. 11 kW × service factor 1.15
- * computes as 12 649.999… W, and a largest power of 12 650 W is covered by it, as 12 650 W / 1.15 picks 11 kW.
+ * Relative slack in "a motor limit covers a power" (dimensionless): rounding only. 11 kW × service factor 1.15
+ * computes as 12 649.999… W, and a largest power of 12 650 W is covered by it, as 12 650 W / 1.15 picks 11 kW. The app's
+ * allowance at a judged limit (quantityText.ts `LIMIT_ROUNDING`, 1 part in 10⁸): a power further above prints apart from
+ * the limit in the overload's words (at 1 part in 10⁹, 2 parts above 1.1 kW read "one pump takes 1.10000000 kW, above
+ * motor rating × service factor 1.10 kW").
  */
-export const COVERS_SLACK = 1e-9;
+export const COVERS_SLACK = LIMIT_ROUNDING;
 
 /**
  * A motor's limit, rating × service factor, W, without floating-point noise: 11 kW × 1.15 is 12 650 W, not 12 649.999… W
@@ -171,11 +174,12 @@ export function motorEfficiency(rating: number, ieClass: IeClass = DEFAULT_IE_CL
   const entry = (j: number) => qtLimit("power", IE_TABLE_KW[j] * 1000, [w]);
   const at = (j: number) => `${entry(j)} (${pct(j)})`;
   // Outside the standard's range (below 0.12 kW): its smallest entry, which overstates a smaller motor's efficiency.
-  if (kw < IE_TABLE_KW[0] * (1 - 1e-9)) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qtExact("power", w, [IE_TABLE_KW[0] * 1000])} is below the IEC 60034-30-1 table, which starts at ${entry(0)}: its ${pct(0)} is used (a smaller motor's efficiency is lower: energy understated)` });
+  // A rating within LIMIT_ROUNDING (1 part in 10⁸, the words' digits) of an entry is at it; further off, it prints apart from it.
+  if (kw < IE_TABLE_KW[0] * (1 - LIMIT_ROUNDING)) warnings.push({ code: "motor-below-table", parameter: "rating", message: `motor ${qtExact("power", w, [IE_TABLE_KW[0] * 1000])} is below the IEC 60034-30-1 table, which starts at ${entry(0)}: its ${pct(0)} is used (a smaller motor's efficiency is lower: energy understated)` });
   // The table's own step: a rating between two entries takes the lower entry (the standard interpolates; this is conservative).
   let i = 0;
-  while (i + 1 < IE_TABLE_KW.length && IE_TABLE_KW[i + 1] <= kw * (1 + 1e-9)) i++;
-  const between = kw > IE_TABLE_KW[i] * (1 + 1e-9) && i + 1 < IE_TABLE_KW.length;
+  while (i + 1 < IE_TABLE_KW.length && IE_TABLE_KW[i + 1] <= kw * (1 + LIMIT_ROUNDING)) i++;
+  const between = kw > IE_TABLE_KW[i] * (1 + LIMIT_ROUNDING) && i + 1 < IE_TABLE_KW.length;
   if (between) warnings.push({ code: "motor-between-table", parameter: "rating", message: `motor ${qtExact("power", w, [IE_TABLE_KW[i] * 1000, IE_TABLE_KW[i + 1] * 1000])} lies between the IEC 60034-30-1 table's ${at(i)} and ${at(i + 1)}: the lower entry's ${pct(i)} is used (conservative; the standard's interpolation for intermediate outputs is not applied)` });
   return { efficiency: row[i] / 100, warnings };
 }

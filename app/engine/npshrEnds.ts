@@ -1,5 +1,7 @@
 // Where NPSHr is read at the ends of its published column: the rounding allowance the workbench's curve (pumpCurve.ts
 // `npshrAt`) and the search's index (searchIndex.ts `evalNpshrPacked`) share, so both read NPSHr at the same flows.
+import { LIMIT_ROUNDING } from "./quantityText.ts";
+
 /**
  * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁸). NPSHr is read off the published curve
  * between its first and last published flow, never beyond (decision "npshone"); but a flow that reaches an end through
@@ -12,9 +14,10 @@
  * it, so a flow further out than that prints apart from the end in every unit — at 1 part in 10⁹ (decision "npshtwo") a
  * flow 1–1.2 parts in 10⁹ past 43.2 m³/h still read "43.2000000", and one up to 5 parts past a flow written with a
  * leading 1. The same in the search's index (searchIndex.ts `evalNpshrPacked`), so the search and the workbench read
- * NPSHr at the same flows. Tests: engine/npshr-end-rounding.test.ts, lib/projects/npshr-end-rounding.test.ts.
+ * NPSHr at the same flows. The app's one allowance at a judged limit (quantityText.ts `LIMIT_ROUNDING`).
+ * Tests: engine/npshr-end-rounding.test.ts, lib/projects/npshr-end-rounding.test.ts.
  */
-export const NPSHR_END_ROUNDING = 1e-8;
+export const NPSHR_END_ROUNDING = LIMIT_ROUNDING;
 
 /**
  * The flow NPSHr is read at: `flow` itself, or the NPSHr column's first or last published flow where `flow` lies within

@@ -11,8 +11,8 @@
  */
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
-import { boundInward, groupThousands } from "./limitText.ts";
-export { boundInward, groupThousands, THOUSANDS_SPACE } from "./limitText.ts";
+import { boundInward, groupThousands, MAX_SIGNIFICANT } from "./limitText.ts";
+export { boundInward, groupThousands, LIMIT_ROUNDING, MAX_SIGNIFICANT, THOUSANDS_SPACE } from "./limitText.ts";
 
 /**
  * Matches one token: quantity name (letters), a number as written by {@link qt} (or NaN) and, from
@@ -160,8 +160,6 @@ export function qtPair(quantity: Quantity, reading: number, limit: number): [str
 
 /** Decimals of the magnitude rule (≥100: 0, ≥10: 1, ≥1: 2, else 3). */
 const decimalsFor = (x: number) => (Math.abs(x) >= 100 ? 0 : Math.abs(x) >= 10 ? 1 : Math.abs(x) >= 1 ? 2 : 3);
-/** Decimals are added to tell a value from its limits until it shows this many significant digits (count; 1 part in 10⁹). */
-const MAX_SIGNIFICANT = 9;
 /** The most decimals that show a value and its limits to MAX_SIGNIFICANT digits (count). */
 const maxDecimals = (base: number, values: readonly number[]) => {
   const m = Math.max(...values.map(Math.abs));

@@ -8,8 +8,9 @@
  * A step below the maker's minimum continuous flow (`makerMinFlow`, one pump's, from the curve set's library: the maker's
  * figure) gets the stronger note `step-below-maker-min-flow` instead, naming the step's flow and the maker's figure: the
  * maker does not allow continuous running there. On a drive the figure scales with the step's speed as the BEP flow does
- * (Q ∝ N, affinity laws: common practice, from memory — the maker's data may say otherwise); below it by 1 part in 10⁹ at
- * least (a flow computed a rounding error under the figure is at it). It needs no BEP.
+ * (Q ∝ N, affinity laws: common practice, from memory — the maker's data may say otherwise); below it by more than 1 part
+ * in 10⁸ (quantityText.ts `LIMIT_ROUNDING`, the verdict's too: a flow computed a rounding error under the figure is at it,
+ * and one further under prints apart from it). It needs no BEP.
  * Notes, never failures (and at a step of 0 h, information only): hours off the BEP wear a pump (recirculation, heating,
  * vibration, bearing and seal life), they do not stop it meeting the step; the candidate's verdict judges its duty against
  * the maker's figure.
@@ -21,7 +22,7 @@
  */
 import type { EngineWarning } from "./errors.ts";
 import { POR_FRACTION, type PumpCurve } from "./pumpCurve.ts";
-import { fmtPct, fmtPctExact, qt, qtPair } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, LIMIT_ROUNDING, qt, qtPair } from "./quantityText.ts";
 
 /** Below this fraction of BEP flow: a common lower bound for continuous running (common practice, from memory). */
 export const STEP_MIN_FLOW_FRACTION = 0.5;
@@ -102,7 +103,7 @@ export function stepPorWarning(input: StepPorInput): StepPorWarning | StepMakerM
   const maker = input.makerMinFlow != null && input.makerMinFlow > 0 && (units === 1 || input.arrangement) ? input.makerMinFlow : null;
   const makerAt = maker === null ? null : maker * speed;
   const makerWords = (qm: string) => (input.vfd && speed !== 1 ? `${qm} at ${fmtPct(speed)} speed (${qt("flow", maker!)} at the curve's speed × ${fmtPct(speed)}, affinity laws: common practice, from memory — the maker's data may say otherwise)` : qm);
-  if (makerAt !== null && share < makerAt * (1 - 1e-9)) {
+  if (makerAt !== null && share < makerAt * (1 - LIMIT_ROUNDING)) {
     const [q, qm] = qtPair("flow", share, makerAt);
     return { code: STEP_BELOW_MAKER_MIN_FLOW, parameter, pumpFlow: share, makerMinFlow: makerAt, message: `${head(q, "")}: below the maker's minimum continuous flow, ${makerWords(qm)} — ${STEP_MAKER_MIN_FLOW_RULE}; expect recirculation in the impeller, heating of the liquid, vibration and bearing and seal damage — pumps staged, a smaller pump for these hours or a minimum-flow bypass (a note at the step; the verdict judges the duty against the same figure)` };
   }

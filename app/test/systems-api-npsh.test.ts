@@ -4,7 +4,10 @@
 // Check values: the rule "NPSHa ≤ 0: cavitation risk whatever the pump's NPSHr" (common practice); water's vapour pressure at
 // 100 °C about one standard atmosphere (steam tables, from memory), so with the suction surface at the pump NPSHa < 0; the
 // qualifier's text is verdict-npsh.ts's own (identity). Pumps: the Tallowmere demo library (invented data).
+import { createElement } from "react";
+import { renderToString } from "react-dom/server";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { SystemsApiDocs } from "~/components/api-docs-systems";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
 import { addCandidate, createProject, createSystem, searchForSystem } from "~/lib/projects";
@@ -88,5 +91,30 @@ describe("NPSH in the systems read API where NPSHa ≤ 0 (the booster at 100 °C
     for (const p of ps) expect(p.ratio).toBeGreaterThan(0);
     const note = verdictNpshNote(c.result.verdict, c.result.npsh);
     expect(c.result.verdictNpsh).toBe(note == null ? null : renderUnits(note, SI_UNITS));
+  });
+});
+
+describe("the /api page names every key of a candidate's result.npsh the read API sends", () => {
+  // The read API sends result.npsh as judged, with npshrPublished and its column (the published NPSHr points kept with a
+  // result, helper "npshtrim"); the page's candidates[] row said only "npsh (NPSH over the band)".
+  /** Every key path of a JSON value ("npshrPublished.column[].flow"). */
+  const keyPaths = (x: unknown, at = ""): string[] =>
+    Array.isArray(x) ? x.flatMap((y) => keyPaths(y, `${at}[]`))
+    : x && typeof x === "object" ? Object.entries(x).flatMap(([k, y]) => [`${at}${at ? "." : ""}${k}`, ...keyPaths(y, `${at}${at ? "." : ""}${k}`)]) : [];
+  const docs = () => renderToString(createElement(SystemsApiDocs, { Code: ({ children }: { children: string }) => createElement("pre", null, children), pageRows: 25, judged: 80 }))
+    .replace(/<!-- -->/g, "").replace(/<[^>]+>/g, "").replace(/&#x27;/g, "'").replace(/\s+/g, " ");
+  test("GET /api/v1/systems/:id: npshrPublished with its column of published points (flow m³/s, NPSHr m), as the result keeps it", async () => {
+    const n = (await read(coldId)).result.npsh as { npshrPublished?: { from: number; to: number; points: number; column?: { flow: number; npshr: number }[] } | null };
+    const pub = n.npshrPublished!;
+    expect(pub.column!.length).toBe(pub.points);
+    expect([pub.column![0].flow, pub.column!.at(-1)!.flow]).toEqual([pub.from, pub.to]);
+  });
+  test("each key, and npshrPublished's own, in the docs' candidates[] row", async () => {
+    const sent = [...new Set(keyPaths((await read(coldId)).result.npsh).map((p) => p.split(".").at(-1)!.replace(/\[\]$/, "")))];
+    const text = docs();
+    const row = /npsh \(NPSH over the band.*?\), warnings,/.exec(text)?.[0] ?? "";
+    expect(sent).toEqual(expect.arrayContaining(["npshrPublished", "column", "npshr", "judgedAt", "unjudged"])); // control: what is sent
+    expect(sent.filter((k) => !new RegExp(`\\b${k}\\b`).test(row))).toEqual([]);
+    expect(row).toMatch(/npshrPublished: the NPSHr one pump's curve publishes, as run .* column \[\{ flow \(m³\/s\), npshr \(m\) \}\]/);
   });
 });

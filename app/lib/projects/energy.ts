@@ -23,7 +23,7 @@ import {
   type DutyStep,
   type LifeCycleResult,
 } from "~/engine";
-import { fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
+import { LIMIT_ROUNDING, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { lccRangeNote } from "./lcc-range-note";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
@@ -53,13 +53,21 @@ const rate = (r: RateRange) => {
 
 /** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends). */
 const stepFlowRefusal = (x: number) =>
-  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${groupThousands(fmtPctSignedExact(x, [x < 0 ? 0 : MAX_FLOW_FRACTION]))}.`;
+  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${x < 0 ? negativePct(x) : groupThousands(fmtPctSignedExact(x, [MAX_FLOW_FRACTION]))}.`;
+/** A negative fraction as a per cent to 3 significant digits, never rounded to zero: "a negative flow, −1e-7 %". */
+const negativePct = (x: number) => `a negative flow, ${groupThousands(String(Number((x * 100).toPrecision(3))).replace("-", "−"))} %`;
 /** Life-cycle years not a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS, with the years sent. */
 const yearsRefusal = (x: number) => `Years (life-cycle cost) must be a whole number from ${MIN_LCC_YEARS} to ${MAX_LCC_YEARS}, not ${groupThousands(String(x))}.`;
 
 export const DutyStepSchema = v.object({
   // 0 %: hours with the system at zero demand, the pump stopped (engine dutyCycle.ts `no-demand`).
-  flowFraction: v.pipe(num("Flow fraction"), v.check((x) => x >= 0 && x <= MAX_FLOW_FRACTION, (i) => stepFlowRefusal(i.input))),
+  // 150 % to 1 part in 10⁸ (LIMIT_ROUNDING), taken as 150 %: a fraction refused prints apart from the limit beside it (1.5 +
+  // 1e-9 was refused as "… to 150 % of the duty flow, not 150.000000 %").
+  flowFraction: v.pipe(
+    num("Flow fraction"),
+    v.check((x) => x >= 0 && x <= MAX_FLOW_FRACTION * (1 + LIMIT_ROUNDING), (i) => stepFlowRefusal(i.input)),
+    v.transform((x) => Math.min(x, MAX_FLOW_FRACTION)),
+  ),
   hours: v.pipe(num("Hours"), v.check((x) => x >= 0 && x <= HOURS_IN_YEAR, (i) => yearHoursRefusal("Hours of a step", i.input))),
 });
 

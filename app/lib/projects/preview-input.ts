@@ -6,7 +6,7 @@
 // and as the dot path the route always gave; one per field, at most PREVIEW_ERRORS_LISTED of them.
 import * as v from "valibot";
 import { FITTINGS, MATERIALS, PIPE_TABLES } from "~/engine";
-import { qtPair } from "~/engine/quantityText";
+import { LIMIT_ROUNDING, qtPair } from "~/engine/quantityText";
 import { MAX_RUNS, storedSizeNote, SystemInputEntrySchema, type PipeRunInput, type SystemInput } from "./system-input";
 import { previewMessage } from "./preview-words";
 
@@ -53,7 +53,7 @@ export function catalogueProblems(runs: readonly PipeRunInput[], stored: readonl
     if (!table) return at("pipeTable", `The catalogue has no pipe table ${JSON.stringify(r.pipeTable)}: its tables are ${TABLE_IDS}; or send "" with "" as nominal for a typed inner diameter.`);
     const size = table.sizes.find((s) => s.nominal === r.nominal);
     if (!size) return at("nominal", `${table.name} lists no size ${JSON.stringify(r.nominal)}: its sizes are ${sizesOf(table)}.`);
-    if (Math.abs(size.innerDiameter - r.diameter) > 1e-9 * size.innerDiameter) {
+    if (Math.abs(size.innerDiameter - r.diameter) > LIMIT_ROUNDING * size.innerDiameter) { // as system-input.ts: further off, the bores print apart
       const [sent, own] = qtPair("diameter", r.diameter, size.innerDiameter);
       at("diameter", `${table.name} ${size.nominal} has an inner diameter of ${own} in the catalogue, not ${sent}: send the table's bore (the editor takes it), or "" as pipeTable and nominal for a typed inner diameter.`);
     }

@@ -2,7 +2,7 @@
 // the unit it is read in (quantity tokens, rendered by whoever shows the words: the editor in the user's units, the API in
 // the caller's). Pure: the schema (system-input.ts), the editor's form (system-form.ts) and the preview API say the same.
 import { PIPE_TABLES, type Quantity } from "~/engine";
-import { fmtNumExact, qtBound, qtSent } from "~/engine/quantityText";
+import { fmtNumExact, LIMIT_ROUNDING, qtBound, qtSent } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { groupThousands } from "../shared/format";
 
@@ -42,10 +42,12 @@ export const boreTaken = (d: number) => d >= MIN_BORE * (1 - SHOWN_PRECISION) &&
 const plain = (x: number) => groupThousands(String(x).replace("-", "−"));
 
 /**
- * Whether `x` (SI) is inside `r`, to 1 part in 10⁹ of the end: an end typed as the refusal shows it in another unit comes
- * back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6 m³/s), and is taken.
+ * Whether `x` (SI) is inside `r`, to 1 part in 10⁸ of the end (engine quantityText.ts `LIMIT_ROUNDING`): an end typed as the
+ * refusal shows it in another unit comes back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6
+ * m³/s), and is taken; a number refused prints apart from the end beside it in every unit (at 1 part in 10⁹ a duty flow
+ * 2 parts in 10⁹ under 1e-5 m³/s was refused as "Sent: 0.158503231 gpm" beside "from 0.158503231 gpm").
  */
-export const inside = (r: NumberRange, x: number) => x >= r.min - 1e-9 * Math.abs(r.min) && x <= r.max + 1e-9 * Math.abs(r.max);
+export const inside = (r: NumberRange, x: number) => x >= r.min - LIMIT_ROUNDING * Math.abs(r.min) && x <= r.max + LIMIT_ROUNDING * Math.abs(r.max);
 
 /**
  * "from A to B (why)": the ends as tokens, each told apart from `value` where it would read the same, their whole parts

@@ -4,7 +4,7 @@
 import * as v from "valibot";
 import { fluidAt, innerDiameter, material as materialOf, MATERIALS, PIPE_TABLES, ROUGHNESS_MAX_OF_DIAMETER, STANDARD_ATMOSPHERE, DEFAULT_FLOW_TOLERANCE, type Fluid, type PipeRunSpec, type SystemSpec } from "~/engine";
 import { DEFAULT_ENERGY_SETTINGS, EnergySettingsSchema } from "./energy";
-import { qt, qtPair } from "~/engine/quantityText";
+import { LIMIT_ROUNDING, qt, qtPair } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
 import { AGED_ROUGHNESS_RANGE, BORE_RANGE, boreTaken, EXTRA_K_RANGE, LENGTH_RANGE, outOfRange, ROUGHNESS_RANGE, type NumberRange } from "./run-ranges";
 import { dutyRangeProblems } from "./duty-ranges";
@@ -20,11 +20,11 @@ const pos = (label: string) => v.pipe(num(label), v.gtValue(0, `${label} must be
 /**
  * A number within `r` (above zero instead of from `r.min` where `aboveZero`), every refusal in the words naming the field and
  * its range (run-ranges.ts). Value actions, not `check`: the editor sets aside a run's checks against a bore it could not read.
- * Each end to 1 part in 10⁹, as `inside`: an end printed in another unit and typed back is taken (decision "inputedge").
+ * Each end to 1 part in 10⁸ (`LIMIT_ROUNDING`), as `inside`: an end printed in another unit and typed back is taken (decision "inputedge").
  */
 const ranged = (r: NumberRange, aboveZero = false) => {
   const words = (i: { input: unknown }) => outOfRange(r, typeof i.input === "number" ? i.input : null);
-  return v.pipe(v.number(words), v.finite(words), aboveZero ? v.gtValue(0, words) : v.minValue(r.min - 1e-9 * Math.abs(r.min), words), v.maxValue(r.max + 1e-9 * Math.abs(r.max), words));
+  return v.pipe(v.number(words), v.finite(words), aboveZero ? v.gtValue(0, words) : v.minValue(r.min - LIMIT_ROUNDING * Math.abs(r.min), words), v.maxValue(r.max + LIMIT_ROUNDING * Math.abs(r.max), words));
 };
 /** A text field of a run: one message for the wrong type and for the length, with the limit. */
 const text = (max: number, words: string) => v.pipe(v.string(words), v.maxLength(max, words));
@@ -272,7 +272,8 @@ export const tableMaterial = (pipeTable: string): string | null => PIPE_TABLES.f
 /**
  * A stored run's catalogue size that the catalogue no longer gives as stored (old data: a table or size since removed,
  * or a size whose dimensions were corrected since): the stored inner diameter is what the system is computed with, said
- * with its number and the table's; null when the run names no size or the table gives the stored bore (to 1e-9).
+ * with its number and the table's; null when the run names no size or the table gives the stored bore (to `LIMIT_ROUNDING`,
+ * 1 part in 10⁸, as preview-input.ts: a bore further off prints apart from the table's).
  */
 function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
   if (!r.pipeTable || !r.nominal) return null;
@@ -284,7 +285,7 @@ function sizeNotInCatalogue(r: PipeRunInput, name: string): string | null {
     const [first, last] = [table.sizes[0].nominal, table.sizes[table.sizes.length - 1].nominal];
     return `${name}: ${table.name} lists no size "${r.nominal}" (its sizes run ${first} to ${last}); ${used}. Check the bore, then pick a size of the table or type the inner diameter.`;
   }
-  if (Math.abs(size.innerDiameter - r.diameter) <= 1e-9 * size.innerDiameter) return null;
+  if (Math.abs(size.innerDiameter - r.diameter) <= LIMIT_ROUNDING * size.innerDiameter) return null;
   const [stored, now] = qtPair("diameter", r.diameter, size.innerDiameter);
   return `${name}: ${table.name} ${r.nominal} has an inner diameter of ${now} in the catalogue now, but the run was saved with ${stored}, which is used. Save the run again to take the table's bore.`;
 }

@@ -7,9 +7,11 @@
 // Rule: each running pump takes the duty flow ÷ the duty pumps in parallel (the whole duty alone or in series, standby
 // pumps never run); below the maker's figure — as published at the curve's speed and impeller, × the speed or trim ratio
 // the candidate runs at (affinity laws, Q ∝ N and Q ∝ D: common practice, from memory; the maker's data may say
-// otherwise) — by more than 1 part in 10⁹ (a flow a rounding error under it is at it), it runs below the maker's minimum
-// flow. A duty-cycle step below it gets its own note (engine stepPor.ts). Pure; quantities as tokens (quantityText.ts).
-import { fmtPct, qt, qtExact, qtLimit } from "~/engine/quantityText";
+// otherwise) — by more than 1 part in 10⁸ (engine quantityText.ts `LIMIT_ROUNDING`: a flow a rounding error under it is at
+// it, and a flow further under prints apart from it; at 1 part in 10⁹ a duty 2 parts in 10⁹ under 12 m³/h read
+// "3.33333333 L/s < 3.33333333 L/s"), it runs below the maker's minimum flow. A duty-cycle step below it gets its own note
+// (engine stepPor.ts), to the same allowance. Pure; quantities as tokens (quantityText.ts).
+import { fmtPct, LIMIT_ROUNDING, qt, qtExact, qtLimit } from "~/engine/quantityText";
 import { againstWord } from "./verdict-npsh";
 
 type VerdictLike = { status: string } | null | undefined;
@@ -28,7 +30,7 @@ export type MinFlowCheck = {
   running: number;
   /** The duty each running pump takes, m³/s (null: no duty). */
   dutyPerPump: number | null;
-  /** True when `dutyPerPump` is below `atPump` (1 part in 10⁹ allowed). */
+  /** True when `dutyPerPump` is below `atPump` by more than `LIMIT_ROUNDING` (1 part in 10⁸). */
   below: boolean;
 };
 
@@ -54,7 +56,7 @@ export function minFlowCheck(
   const running = adj.arrangement === "parallel" ? adj.dutyPumps : 1;
   const duty = dutyFlow != null && dutyFlow > 0 ? dutyFlow : null;
   const dutyPerPump = duty === null ? null : duty / running;
-  return { published, method: adj.method, ratio: r, atPump, dutyFlow: duty, running, dutyPerPump, below: dutyPerPump !== null && dutyPerPump < atPump * (1 - 1e-9) };
+  return { published, method: adj.method, ratio: r, atPump, dutyFlow: duty, running, dutyPerPump, below: dutyPerPump !== null && dutyPerPump < atPump * (1 - LIMIT_ROUNDING) };
 }
 
 /** Read from a frozen result: a check with its numbers, or null (selections frozen before it was kept have none). */
