@@ -13,6 +13,7 @@ import { unknownUnitProblems } from "./units-row";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
 import { withRatingValues } from "./rated-values";
+import { unnamedTailOf } from "./shifted-cells";
 
 export interface AnalyseOptions {
   /** Try the fast path for clean long-layout files first (default true; tests turn it off to compare). */
@@ -78,7 +79,10 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const withRows = <T extends object>(o: T): T & { readonly rows: SourceRow[] } =>
     Object.defineProperty(o, "rows", { get: parseAll, enumerable: false }) as T & { readonly rows: SourceRow[] };
 
-  if (opts.fast !== false && structural.length === 0) {
+  // Unnamed columns after the last named one in a comma-separated file: a number there may be a decimal comma split off
+  // the last named column (shifted-cells.ts), which the full path names at the row.
+  const unnamedTail = sniff.delimiter === "," && unnamedTailOf(sniff.headers, new Set(used.columns.filter((c) => c.field !== "ignore").map((c) => c.index))) !== null;
+  if (opts.fast !== false && structural.length === 0 && !unnamedTail) {
     const quick = fastLongValidate(body, sniff, used);
     if (quick) return withRows({ ...base, fastPath: true, result: quick });
   }
@@ -87,7 +91,7 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const csvIssues: Problem[] = parseIssues.map((i) => ({
     row: i.line, column: null, reason: `CSV syntax: ${i.message}`, severity: "error", code: "csv-syntax", curveKey: null,
   }));
-  const long = toLongRows(rows, used, sniff.headers);
+  const long = toLongRows(rows, used, sniff.headers, sniff.delimiter);
   const fatal = structural.some((p) => p.severity === "error");
   const result = fatal ? validateLongRows([], vopts) : validateLongRows(long.rows, vopts);
   const empty: Problem[] =

@@ -115,7 +115,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
       rowProblems.push({ row: lr.line, column, reason, severity: "error", code });
-    if (lr.shifted) bad(null, "extra-cells", lr.shifted); // numbers beyond the header: its cells moved (shifted-cells.ts)
+    if (lr.shifted) bad(lr.shiftedColumn ?? null, "extra-cells", lr.shifted); // numbers beyond the header, or spilt into an unnamed column: its cells moved (shifted-cells.ts)
 
     const num = (field: NumericField, required: boolean): number | null | undefined => {
       const cell: Cell | undefined = lr.cells[field];
@@ -242,7 +242,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     }
     b.lastLine = lr.line;
     b.set.sourceRows.push(lr.line);
-    minFlows.add(key, lr);
+    if (!lr.shifted) minFlows.add(key, lr); // a row whose cells moved gives no figure (shifted-cells.ts)
     for (const f of ["type", "size", "notes"] as const) {
       const cell = lr.cells[f];
       const t = cell ? textCell(cell.raw) : undefined;
