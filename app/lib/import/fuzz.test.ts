@@ -125,10 +125,10 @@ describe("truncated files", () => {
 });
 
 describe("degenerate files", () => {
-  it("an empty file: no curves and one mapping problem at line 1", () => {
+  it("an empty file: no curves and one problem at line 1, the missing data rows (not the mapping that follows from them)", () => {
     const a = analyse("");
     expect(a.result.curveSets).toEqual([]);
-    expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[1, "mapping", "error"]]); // source: checkMapping (nothing to map)
+    expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[1, "missing-value", "error"]]); // source: our importer's rule (index.ts emptyReason)
   });
 
   it("headers only: no rows, no curves", () => {
@@ -142,11 +142,11 @@ describe("degenerate files", () => {
     expect(p?.row).toBe(1); // source: construction (the header is line 1)
   });
 
-  it("only commas: no curves, a mapping error, and the suggested mapping is refused by MappingSchema (ValiError)", () => {
+  it("only commas: no curves, the missing data rows said, and the suggested mapping is refused by MappingSchema (ValiError)", () => {
     const t = ",,,,,,\n".repeat(50);
     const a = analyse(t);
     expect(a.result.curveSets).toEqual([]);
-    expect(a.result.problems.some((p) => p.code === "mapping" && p.severity === "error")).toBe(true); // source: checkMapping
+    expect(a.result.problems.map((p) => [p.code, p.severity, p.reason.includes("no data rows")])).toEqual([["missing-value", "error", true]]); // source: our importer's rule
     expect(() => analyseCsv(t, a.suggestedMapping)).toThrow(v.ValiError); // documented: an invalid mapping throws (index.ts)
   });
 

@@ -52,6 +52,14 @@ function headOf(text: string, lines: number): string {
   return text.slice(0, at);
 }
 
+/** Why a file with no data rows cannot be read: nothing but blank lines, or a header (or one line) and nothing below it. */
+function emptyReason(sniff: SniffResult): string {
+  const named = sniff.headers.filter((h, n) => h !== `Column ${n + 1}`);
+  if (named.length === 0) return "the file has no data rows: it holds nothing but blank lines; a curve file has a header and rows of flow and head below it";
+  const shown = named.join(", ");
+  return `the file has no data rows: line ${sniff.headerLine || 1} (“${shown.length > 80 ? `${shown.slice(0, 79)}…` : shown}”) is all it holds, read as its header; a curve file has rows of flow and head below it`;
+}
+
 export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions = {}): AnalyseResult {
   const given = mapping === undefined ? undefined : v.parse(MappingSchema, mapping);
   const sniff = sniffCsv(text, given?.source ?? {});
@@ -94,12 +102,10 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const long = toLongRows(rows, used, sniff.headers, sniff.delimiter);
   const fatal = structural.some((p) => p.severity === "error");
   const result = fatal ? validateLongRows([], vopts) : validateLongRows(long.rows, vopts);
-  const empty: Problem[] =
-    rows.length === 0 && !fatal
-      ? [{ row: headerLine, column: null, reason: "the file has no data rows below its header", severity: "error", code: "missing-value", curveKey: null }]
-      : [];
+  // No data rows: said first and alone — the mapping's errors ("no column is mapped to model" for a file holding "A") follow from it.
+  const empty: Problem[] = rows.length === 0 ? [{ row: headerLine || 1, column: null, reason: emptyReason(sniff), severity: "error", code: "missing-value", curveKey: null }] : [];
   // A rating column mapped to power all the same is kept (the user's choice); its warning gets the values, curve by curve (rated-values.ts).
-  const said = fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
+  const said = empty.length ? [] : fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
   const problems = [...said, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
   return withRows({
