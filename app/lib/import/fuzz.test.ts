@@ -15,7 +15,7 @@ import { expectEngineTakes } from "./test-helpers";
 const CODES: ProblemCode[] = [
   "not-a-number", "negative", "zero", "missing-value", "missing-model", "flow-not-increasing", "head-rising", "efficiency-over-100",
   "too-few-points", "duplicate-curve", "duplicate-flow", "no-speed", "no-point-values", "extra-cells", "csv-syntax", "mapping", "header-changed",
-  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible", "power-constant", "npshr-small", "key-not-given", "min-flow",
+  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible", "power-constant", "npshr-small", "key-not-given", "min-flow", "model-line-break",
 ]; // source: types.ts ProblemCode (hand-copied so a new code is noticed here)
 
 

@@ -6,6 +6,7 @@
 import { shiftedRowReason, unnamedNumberReason, unnamedTailOf } from "./shifted-cells";
 import * as v from "valibot";
 import { parseNumber } from "./numbers";
+import { oneLine } from "./text-cells";
 import type { Delimiter, SourceRow } from "./parse";
 import type { Problem } from "./types";
 import { powerKindMessage } from "./power-kinds";
@@ -71,7 +72,7 @@ export const MappingSchema = v.pipe(
     columns: v.array(MappedColumnSchema),
     /** Values used when the file has no such column (a file for one model, one speed...). */
     defaults: v.object({
-      model: v.optional(v.pipe(v.string(), v.trim(), v.nonEmpty())),
+      model: v.optional(v.pipe(v.string(), v.trim(), v.nonEmpty(), v.transform(oneLine))), // a model name is one line (text-cells.ts)
       speed: v.optional(Positive),
       impeller: v.optional(Positive),
       impellerUnit: v.optional(v.picklist(DIAMETER_UNITS)),
