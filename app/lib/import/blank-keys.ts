@@ -21,7 +21,7 @@
  */
 import type { LongRow } from "./mapping";
 import { parseNumber } from "./numbers";
-import { textCell } from "./text-cells";
+import { oneLine, textCell } from "./text-cells";
 
 export type KeyColumn = "speed" | "impeller";
 
@@ -37,7 +37,7 @@ export interface SplittingBlank {
 export function rowModel(lr: LongRow): string {
   const c = lr.cells.model;
   if (!c) return "";
-  return c.column === "(default)" ? c.raw.trim() : textCell(c.raw);
+  return oneLine(c.column === "(default)" ? c.raw.trim() : textCell(c.raw)); // a model name is one line (text-cells.ts)
 }
 
 /**

@@ -1,6 +1,6 @@
 /**
  * One curve's points in file order, as validate.ts collected them (pure): flow strictly increasing (flow-not-increasing,
- * duplicate-flow), the first head above zero (zero), head rising at most 5 % of the first head above the lowest before it
+ * duplicate-flow), the first head above zero and no zero head before a head above zero (zero), head rising at most 5 % of the first head above the lowest before it
  * (head-rising, point-rules.ts), run-out points past zero head at the end dropped (run-out), a fraction written among
  * percents (efficiency-fraction, efficiency-fraction.ts), the best efficiency plausible (efficiency-implausible), η against
  * ρgQH/P (inconsistent), one power at every point (power-constant), at least 3 points (too-few-points), the maker's
@@ -56,6 +56,14 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
   while (tail > 0 && b.rows[tail - 1].runOut) tail--;
   // a fraction written among percents (“0.72” beside 50, 70, 72): neither reading is taken (efficiency-fraction.ts)
   const fractions = fractionsAmongPercents(b.rows.filter((r) => !r.runOut).map((r) => ({ line: r.line, flow: r.point.flow, efficiency: r.point.efficiency, effRaw: r.effRaw })), b.effUnit);
+  // A zero head with a head above zero on a later row: a pump's head reaches zero only at the curve's end (run-out). The zero
+  // is refused at its own row; the rows after it are judged against the heads before it, never as rises over the zero.
+  const aboveAfter: Array<number | null> = new Array(b.rows.length).fill(null);
+  for (let k = b.rows.length - 2, next: number | null = null; k >= 0; k--) {
+    const r = b.rows[k + 1];
+    if (!r.runOut && r.point.head > 0) next = k + 1;
+    aboveAfter[k] = next;
+  }
   for (let k = 0; k < b.rows.length; k++) {
     const r = b.rows[k];
     if (r.runOut) {
@@ -78,6 +86,13 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
       }
       if (p.flow < prev.point.flow) {
         add(r.line, r.flowColumn, "flow-not-increasing", `flow is lower than on line ${prev.line}: flow must increase along a curve`, key);
+        continue;
+      }
+      const later = aboveAfter[k];
+      if (p.head === 0 && later !== null) {
+        const n = b.rows[later];
+        add(r.line, r.headColumn, "zero",
+          `head ${qt("head", 0)} in the middle of the curve (line ${n.line} after it has head ${qt("head", n.point.head)}): a pump's head falls to zero only at the curve's end (run-out); this point is left out`, key);
         continue;
       }
       if (risesTooMuch(p.head, lowest, first)) {

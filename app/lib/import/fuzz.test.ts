@@ -12,11 +12,16 @@ import type { ProblemCode } from "./types";
 import { prng } from "../../../fixtures/prng";
 import { expectEngineTakes } from "./test-helpers";
 
-const CODES: ProblemCode[] = [
-  "not-a-number", "negative", "zero", "missing-value", "missing-model", "flow-not-increasing", "head-rising", "efficiency-over-100",
-  "too-few-points", "duplicate-curve", "duplicate-flow", "no-speed", "no-point-values", "extra-cells", "csv-syntax", "mapping", "header-changed",
-  "run-out", "inconsistent", "zero-dropped", "efficiency-implausible", "power-constant", "npshr-small", "key-not-given", "min-flow",
-]; // source: types.ts ProblemCode (hand-copied so a new code is noticed here)
+// Every code of types.ts ProblemCode: `satisfies` makes the type check fail when a code is added there and not here (the
+// hand-copied list it replaces had missed "efficiency-fraction").
+const CODE_SET = {
+  "not-a-number": true, "negative": true, "zero": true, "missing-value": true, "missing-model": true, "flow-not-increasing": true,
+  "head-rising": true, "efficiency-over-100": true, "too-few-points": true, "duplicate-curve": true, "duplicate-flow": true, "no-speed": true,
+  "no-point-values": true, "extra-cells": true, "csv-syntax": true, "mapping": true, "header-changed": true, "run-out": true,
+  "inconsistent": true, "zero-dropped": true, "efficiency-implausible": true, "power-constant": true, "npshr-small": true, "key-not-given": true,
+  "min-flow": true, "model-line-break": true, "efficiency-fraction": true,
+} satisfies Record<ProblemCode, true>;
+const CODES = Object.keys(CODE_SET) as ProblemCode[];
 
 
 const demo = generateDemo();
@@ -125,10 +130,10 @@ describe("truncated files", () => {
 });
 
 describe("degenerate files", () => {
-  it("an empty file: no curves and one mapping problem at line 1", () => {
+  it("an empty file: no curves and one problem at line 1, the missing data rows (not the mapping that follows from them)", () => {
     const a = analyse("");
     expect(a.result.curveSets).toEqual([]);
-    expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[1, "mapping", "error"]]); // source: checkMapping (nothing to map)
+    expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[1, "missing-value", "error"]]); // source: our importer's rule (index.ts emptyReason)
   });
 
   it("headers only: no rows, no curves", () => {
@@ -142,11 +147,11 @@ describe("degenerate files", () => {
     expect(p?.row).toBe(1); // source: construction (the header is line 1)
   });
 
-  it("only commas: no curves, a mapping error, and the suggested mapping is refused by MappingSchema (ValiError)", () => {
+  it("only commas: no curves, the missing data rows said, and the suggested mapping is refused by MappingSchema (ValiError)", () => {
     const t = ",,,,,,\n".repeat(50);
     const a = analyse(t);
     expect(a.result.curveSets).toEqual([]);
-    expect(a.result.problems.some((p) => p.code === "mapping" && p.severity === "error")).toBe(true); // source: checkMapping
+    expect(a.result.problems.map((p) => [p.code, p.severity, p.reason.includes("no data rows")])).toEqual([["missing-value", "error", true]]); // source: our importer's rule
     expect(() => analyseCsv(t, a.suggestedMapping)).toThrow(v.ValiError); // documented: an invalid mapping throws (index.ts)
   });
 

@@ -13,6 +13,7 @@ import { unknownUnitProblems } from "./units-row";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
 import { withRatingValues } from "./rated-values";
+import { unnamedTailOf } from "./shifted-cells";
 
 export interface AnalyseOptions {
   /** Try the fast path for clean long-layout files first (default true; tests turn it off to compare). */
@@ -51,6 +52,14 @@ function headOf(text: string, lines: number): string {
   return text.slice(0, at);
 }
 
+/** Why a file with no data rows cannot be read: nothing but blank lines, or a header (or one line) and nothing below it. */
+function emptyReason(sniff: SniffResult): string {
+  const named = sniff.headers.filter((h, n) => h !== `Column ${n + 1}`);
+  if (named.length === 0) return "the file has no data rows: it holds nothing but blank lines; a curve file has a header and rows of flow and head below it";
+  const shown = named.join(", ");
+  return `the file has no data rows: line ${sniff.headerLine || 1} (“${shown.length > 80 ? `${shown.slice(0, 79)}…` : shown}”) is all it holds, read as its header; a curve file has rows of flow and head below it`;
+}
+
 export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions = {}): AnalyseResult {
   const given = mapping === undefined ? undefined : v.parse(MappingSchema, mapping);
   const sniff = sniffCsv(text, given?.source ?? {});
@@ -78,7 +87,10 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const withRows = <T extends object>(o: T): T & { readonly rows: SourceRow[] } =>
     Object.defineProperty(o, "rows", { get: parseAll, enumerable: false }) as T & { readonly rows: SourceRow[] };
 
-  if (opts.fast !== false && structural.length === 0) {
+  // Unnamed columns after the last named one in a comma-separated file: a number there may be a decimal comma split off
+  // the last named column (shifted-cells.ts), which the full path names at the row.
+  const unnamedTail = sniff.delimiter === "," && unnamedTailOf(sniff.headers, new Set(used.columns.filter((c) => c.field !== "ignore").map((c) => c.index))) !== null;
+  if (opts.fast !== false && structural.length === 0 && !unnamedTail) {
     const quick = fastLongValidate(body, sniff, used);
     if (quick) return withRows({ ...base, fastPath: true, result: quick });
   }
@@ -87,15 +99,13 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const csvIssues: Problem[] = parseIssues.map((i) => ({
     row: i.line, column: null, reason: `CSV syntax: ${i.message}`, severity: "error", code: "csv-syntax", curveKey: null,
   }));
-  const long = toLongRows(rows, used, sniff.headers);
+  const long = toLongRows(rows, used, sniff.headers, sniff.delimiter);
   const fatal = structural.some((p) => p.severity === "error");
   const result = fatal ? validateLongRows([], vopts) : validateLongRows(long.rows, vopts);
-  const empty: Problem[] =
-    rows.length === 0 && !fatal
-      ? [{ row: headerLine, column: null, reason: "the file has no data rows below its header", severity: "error", code: "missing-value", curveKey: null }]
-      : [];
+  // No data rows: said first and alone — the mapping's errors ("no column is mapped to model" for a file holding "A") follow from it.
+  const empty: Problem[] = rows.length === 0 ? [{ row: headerLine || 1, column: null, reason: emptyReason(sniff), severity: "error", code: "missing-value", curveKey: null }] : [];
   // A rating column mapped to power all the same is kept (the user's choice); its warning gets the values, curve by curve (rated-values.ts).
-  const said = fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
+  const said = empty.length ? [] : fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
   const problems = [...said, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
   return withRows({

@@ -3,10 +3,11 @@
  * A Mapping is a plain JSON object: it is saved per library and offered again, and comes back
  * from a form, where MappingSchema validates it. Pure: no Node or DOM APIs.
  */
-import { shiftedRowReason } from "./shifted-cells";
+import { shiftedRowReason, unnamedNumberReason, unnamedTailOf } from "./shifted-cells";
 import * as v from "valibot";
 import { parseNumber } from "./numbers";
-import type { SourceRow } from "./parse";
+import { oneLine } from "./text-cells";
+import type { Delimiter, SourceRow } from "./parse";
 import type { Problem } from "./types";
 import { powerKindMessage } from "./power-kinds";
 import {
@@ -71,7 +72,7 @@ export const MappingSchema = v.pipe(
     columns: v.array(MappedColumnSchema),
     /** Values used when the file has no such column (a file for one model, one speed...). */
     defaults: v.object({
-      model: v.optional(v.pipe(v.string(), v.trim(), v.nonEmpty())),
+      model: v.optional(v.pipe(v.string(), v.trim(), v.nonEmpty(), v.transform(oneLine))), // a model name is one line (text-cells.ts)
       speed: v.optional(Positive),
       impeller: v.optional(Positive),
       impellerUnit: v.optional(v.picklist(DIAMETER_UNITS)),
@@ -223,6 +224,8 @@ export interface LongRow {
   cells: Partial<Record<KeyField, Cell>>;
   /** Numbers beyond the header's columns: why the row's cells cannot be read by their columns (shifted-cells.ts); validate.ts refuses the point. */
   shifted?: string;
+  /** The column the shifted reason is charged to (the last named column, when a number spilled into an unnamed one after it); none for the whole row. */
+  shiftedColumn?: string;
 }
 
 interface BlockPlan {
@@ -308,7 +311,7 @@ function plan(mapping: Mapping): { shared: MappedColumn[]; blocks: BlockPlan[] }
  * point cells are all blank on a row is skipped (its curve ended earlier than the others).
  * Also reports rows with content beyond the header (warning) and rows without point values.
  */
-export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[]): { rows: LongRow[]; problems: Problem[] } {
+export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[], delimiter?: Delimiter): { rows: LongRow[]; problems: Problem[] } {
   const out: LongRow[] = [];
   const problems: Problem[] = [];
   const { shared, blocks } = plan(mapping);
@@ -322,13 +325,18 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
   let lastModel = "";
   const lastKey: Partial<Record<"speed" | "impeller", string>> = {};
 
+  // A decimal comma in the last named column of a comma-separated file spills into an unnamed column (shifted-cells.ts).
+  const tail = delimiter === "," ? unnamedTailOf(headers, new Set(mapping.columns.filter((c) => c.field !== "ignore").map((c) => c.index))) : null;
   const cellOf = (row: SourceRow, c: MappedColumn): Cell => ({ raw: row.cells[c.index] ?? "", column: c.header, unit: (c.unit ?? null) as Unit | null });
 
   for (const row of rows) {
     const extra = row.cells.slice(headers.length).filter((x) => x.trim() !== "").length;
-    const shifted = extra ? shiftedRowReason(row.cells, headers.length) : null;
-    if (extra && !shifted)
+    const beyond = extra ? shiftedRowReason(row.cells, headers.length) : null;
+    if (extra && !beyond)
       problems.push({ row: row.line, column: null, reason: `row has ${extra} filled cell(s) beyond the ${headers.length} header columns; they were ignored`, severity: "warning", code: "extra-cells", curveKey: null });
+    const spilt = beyond || !tail ? null : unnamedNumberReason(row.cells, headers, tail);
+    const shifted = beyond ?? spilt?.reason ?? null;
+    const moved = shifted ? { shifted, ...(spilt ? { shiftedColumn: spilt.column } : {}) } : {};
 
     const base: Partial<Record<KeyField, Cell>> = { ...defaults };
     for (const c of shared) base[c.field as KeyField] = cellOf(row, c);
@@ -361,7 +369,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
           problems.push({ row: row.line, column: null, reason: "row has no point values (flow, head...); skipped", severity: "warning", code: "no-point-values", curveKey: null });
         continue;
       }
-      out.push({ line: row.line, block: 0, cells: base, ...(shifted ? { shifted } : {}) });
+      out.push({ line: row.line, block: 0, cells: base, ...moved });
       continue;
     }
 
@@ -376,7 +384,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
       if (q.speed !== undefined) cells.speed = { raw: String(q.speed), column: b.columns[0].header, unit: "rpm", preset: q.speed };
       if (q.impeller !== undefined)
         cells.impeller = { raw: String(q.impeller), column: b.columns[0].header, unit: (q.impellerUnit ?? "mm") as DiameterUnit, preset: q.impeller };
-      out.push({ line: row.line, block: bi, cells, ...(shifted ? { shifted } : {}) });
+      out.push({ line: row.line, block: bi, cells, ...moved });
     });
     if (!any && !(mapping.fillDownModel && modelCol && row.cells[modelCol.index]?.trim()))
       problems.push({ row: row.line, column: null, reason: "row has no point values in any block; skipped", severity: "warning", code: "no-point-values", curveKey: null });

@@ -24,11 +24,11 @@ describe("a quoted cell on two lines on every row", () => {
     });
   }
 
-  it("a model cell on two lines: comma, and its curve reads under that name (old code: tab, every row refused)", () => {
+  it("a model cell on two lines: comma, and its curve reads under that name on one line (old code: tab, every row refused; model-line-break.test.ts)", () => {
     const text = ["Model,Speed (rpm),Flow (m3/h),Head (m)", '"Pump\nX",2900,0,30', '"Pump\nX",2900,10,29', '"Pump\nX",2900,20,27'].join("\n");
     const a = analyseCsv(text);
     expect(a.sniff.delimiter).toBe(",");
-    expect(a.result.curveSets.map((c) => [c.model, c.ok, c.points.length])).toEqual([["Pump\nX", true, 3]]);
+    expect(a.result.curveSets.map((c) => [c.model, c.ok, c.points.length])).toEqual([["Pump X", true, 3]]);
   });
 });
 

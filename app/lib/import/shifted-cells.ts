@@ -28,3 +28,54 @@ export function shiftedRowReason(cells: readonly string[], width: number): strin
     `so this row's values cannot be read by their columns — write 27.5 (a comma-separated file takes a decimal point), or remove the stray cells; the point is left out`
   );
 }
+
+/**
+ * A decimal comma in the LAST named column spills into a column with no header ("Model,Flow,Head,Min flow" over
+ * "A,10,20,12,5"): on every row, so the sniffer widens the header to an unnamed “Column 5”, which the mapping leaves out,
+ * and “12” was read as the minimum flow without a word. A number in an unnamed column after the last named one, beside
+ * a number in that last named column, is read as such a split (comma-separated files only: a `;` or tab file keeps
+ * “12,5” in one cell). Text there (a note column without a header) is not: it stays an ignored column, as before.
+ */
+export interface UnnamedTail {
+  /** Index of the last column whose header cell was written. */
+  last: number;
+  /** The unmapped columns after it whose header cell was blank (“Column N”, sniff.ts). */
+  tail: number[];
+}
+
+/**
+ * The unnamed, unmapped columns after the last named one, or null when there are none.
+ * @param headers the sniffed names (a blank header cell is named “Column N”, 1-based)
+ * @param mapped indices of the columns the mapping reads (any field but ignore)
+ */
+export function unnamedTailOf(headers: readonly string[], mapped: ReadonlySet<number>): UnnamedTail | null {
+  const unnamed = (n: number) => headers[n] === `Column ${n + 1}`;
+  let last = headers.length - 1;
+  while (last >= 0 && unnamed(last)) last--;
+  if (last < 0 || last === headers.length - 1) return null;
+  const tail: number[] = [];
+  for (let n = last + 1; n < headers.length; n++) if (!mapped.has(n)) tail.push(n);
+  return tail.length ? { last, tail } : null;
+}
+
+/**
+ * Why the row's last named cell cannot be taken as written (the column to charge and the reason), or null when no unnamed
+ * cell after it holds a number, or the last named cell holds none.
+ */
+export function unnamedNumberReason(cells: readonly string[], headers: readonly string[], t: UnnamedTail): { column: string; reason: string } | null {
+  const lastRaw = (cells[t.last] ?? "").trim();
+  if (!looksNumeric(lastRaw)) return null;
+  const at = t.tail.find((n) => looksNumeric((cells[n] ?? "").trim()));
+  if (at === undefined) return null;
+  const spill = (cells[at] ?? "").trim();
+  const written = cells.map((c) => c.trim()).join(" | ");
+  const shown = written.length > SHOWN ? `${written.slice(0, SHOWN - 1)}…` : written;
+  const name = headers[t.last];
+  return {
+    column: name,
+    reason:
+      `${name} “${lastRaw}” is followed by a number, “${spill}”, in ${headers[at]}, a column with no header; its cells as read: ${shown}. ` +
+      `A number in a column with no header beside a numeric last column is likely a decimal comma (${lastRaw},${spill}) split in two by the comma-separated file, ` +
+      `so ${name} would read ${lastRaw} — write ${lastRaw}.${spill} (a comma-separated file takes a decimal point), or give the column a header if it holds values of its own; the point is left out`,
+  };
+}

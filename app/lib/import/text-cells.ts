@@ -23,3 +23,16 @@ export function undefused(raw: string): string {
 export function textCell(raw: string): string {
   return undefused(raw).trim();
 }
+
+/** A line break with the blanks around it: a model name is one line, so a quoted “Pump⏎X” is read “Pump X” (DEVELOPERS.md, Decisions). */
+const LINE_BREAK = /\s*[\r\n\u2028\u2029]+\s*/g;
+
+/** True when the text holds a line break (a quoted cell written on two lines). */
+export function hasLineBreak(s: string): boolean {
+  return /[\r\n\u2028\u2029]/.test(s);
+}
+
+/** The text on one line: each line break, with the blanks around it, folded to one space. */
+export function oneLine(s: string): string {
+  return hasLineBreak(s) ? s.replace(LINE_BREAK, " ") : s;
+}

@@ -28,7 +28,8 @@ export type ProblemCode =
   | "npshr-small"
   | "key-not-given"
   | "min-flow"
-  | "efficiency-fraction";
+  | "efficiency-fraction"
+  | "model-line-break";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

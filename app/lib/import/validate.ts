@@ -37,7 +37,7 @@ import { parseNumber, underflows } from "./numbers";
 import { NPSHR_SMALL, npshrSmallReason } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
-import { textCell } from "./text-cells";
+import { hasLineBreak, textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { MinFlowCells } from "./min-flow";
 import { checkCurve, WATER_20C_DENSITY, type Building } from "./curve-sequence";
@@ -108,6 +108,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     problems.push({ row, column, reason, severity, code, curveKey: curve });
 
   const { splits, beside } = blankKeyRuns(rows, opts.decimalComma);
+  const folded = new Set<string>(); // curves whose model cell was folded onto one line (said once each)
   const minFlows = new MinFlowCells(opts.decimalComma); // one figure per curve, judged once its points are known
   for (let ri = 0; ri < rows.length; ri++) {
     const lr = rows[ri];
@@ -115,7 +116,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     const negatives: Partial<Record<"head" | "power" | "efficiency", number>> = {};
     const bad = (column: string | null, code: ProblemCode, reason: string) =>
       rowProblems.push({ row: lr.line, column, reason, severity: "error", code });
-    if (lr.shifted) bad(null, "extra-cells", lr.shifted); // numbers beyond the header: its cells moved (shifted-cells.ts)
+    if (lr.shifted) bad(lr.shiftedColumn ?? null, "extra-cells", lr.shifted); // numbers beyond the header, or spilt into an unnamed column: its cells moved (shifted-cells.ts)
 
     const num = (field: NumericField, required: boolean): number | null | undefined => {
       const cell: Cell | undefined = lr.cells[field];
@@ -240,9 +241,15 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
       curves.set(key, b);
       order.push(key);
     }
+    // A model cell on two lines ("Pump⏎X", quoted) is read on one ("Pump X"): said once per curve, at its first such row.
+    if (modelCell && modelCell.column !== "(default)" && hasLineBreak(modelCell.raw.trim()) && !folded.has(key)) {
+      folded.add(key);
+      add(lr.line, modelCell.column, "model-line-break",
+        `model “${modelCell.raw.trim().replace(/\r?\n|\r/g, "⏎")}” is written on more than one line; a model name is one line, so it is read “${model}” (each line break a space), here and on this curve's other rows`, key, "warning");
+    }
     b.lastLine = lr.line;
     b.set.sourceRows.push(lr.line);
-    minFlows.add(key, lr);
+    if (!lr.shifted) minFlows.add(key, lr); // a row whose cells moved gives no figure (shifted-cells.ts)
     for (const f of ["type", "size", "notes"] as const) {
       const cell = lr.cells[f];
       const t = cell ? textCell(cell.raw) : undefined;
