@@ -54,8 +54,11 @@ const rate = (r: RateRange) => {
 /** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends). */
 const stepFlowRefusal = (x: number) =>
   `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${x < 0 ? negativePct(x) : groupThousands(fmtPctSignedExact(x, [MAX_FLOW_FRACTION]))}.`;
-/** A negative fraction as a per cent to 3 significant digits, never rounded to zero: "a negative flow, −1e-7 %". */
-const negativePct = (x: number) => `a negative flow, ${groupThousands(String(Number((x * 100).toPrecision(3))).replace("-", "−"))} %`;
+/** A negative fraction as a per cent ("−5.0 %"); one the per cent's decimals cannot show to 3 significant digits ("−1e-7 %", never "−under 0.000001 %"). */
+const negativePct = (x: number) => {
+  const t = fmtPctSignedExact(x, [0]);
+  return /under/.test(t) ? `${String(Number((x * 100).toPrecision(3))).replace("-", "−")} %` : groupThousands(t);
+};
 /** Life-cycle years not a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS, with the years sent. */
 const yearsRefusal = (x: number) => `Years (life-cycle cost) must be a whole number from ${MIN_LCC_YEARS} to ${MAX_LCC_YEARS}, not ${groupThousands(String(x))}.`;
 
