@@ -6,6 +6,7 @@
 import { spawn, spawnSync } from "node:child_process";
 import { cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
+import { portBook } from "./galera-ports.mjs";
 import { DATA_ROOT, createDatabase, ensureDebianPackages, freePort, initDataDir, pidAlive, ping, serverArgs } from "./mariadb.mjs";
 
 const log = (msg) => process.stderr.write(`[galera] ${msg}\n`);
@@ -65,7 +66,7 @@ const PORT_TAKEN = /Can't start server: Bind on TCP\/IP port|Address already in 
 /** The ports of a node, as its messages name them. */
 const portsText = (n) => `client ${n.port}, group ${n.gcommPort}, IST ${n.istPort}, SST ${n.sstPort}`;
 
-async function startNode(node, { bootstrap, clusterAddress, recover = false, choosePort = freePort }, attempt = 1, tried = []) {
+async function startNode(node, { bootstrap, clusterAddress, recover = false, ports }, attempt = 1, tried = []) {
   tried.push(portsText(node));
   let logBefore = 0;
   try {
@@ -95,6 +96,8 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false, cho
     "--wsrep-sync-wait=1",
   ];
   if (bootstrap) args.push("--wsrep-new-cluster");
+  // The book has kept the node's ports until now (db/galera-ports.mjs): let go of them for mariadbd to bind.
+  await ports.release(node.name);
   if (recover) {
     // After a crash the node does not know its position (grastate.dat says seqno -1): recover it
     // from InnoDB the way the packaged service does (mariadbd --wsrep-recover), then start from it,
@@ -129,9 +132,9 @@ async function startNode(node, { bootstrap, clusterAddress, recover = false, cho
   if (attempt < 3 && PORT_TAKEN.test(log_.slice(logBefore))) {
     if (pidAlive(node.pid)) process.kill(node.pid, "SIGKILL");
     for (let k = 0; k < 50 && pidAlive(node.pid); k++) await sleep(100);
-    Object.assign(node, { port: await choosePort(node.name, "client"), istPort: await choosePort(node.name, "IST"), sstPort: await choosePort(node.name, "SST") });
+    Object.assign(node, await ports.renew(node.name));
     log(`${node.name}: a port was taken before it could bind (another process); starting again on 127.0.0.1:${node.port}`);
-    return startNode(node, { bootstrap, clusterAddress, recover, choosePort }, attempt + 1, tried);
+    return startNode(node, { bootstrap, clusterAddress, recover, ports }, attempt + 1, tried);
   }
   const tail = log_.split("\n").slice(-25).join("\n");
   const where = tried.length > 1 ? `on any of its ${tried.length} sets of ports (${tried.join("; ")})` : `on 127.0.0.1 (${tried[0]})`;
@@ -149,22 +152,26 @@ export async function startGaleraCluster(size = 3, { root = path.join(DATA_ROOT,
   rmSync(root, { recursive: true, force: true });
   mkdirSync(root, { recursive: true });
   const nodes = [];
-  for (let i = 1; i <= size; i++) {
-    const dir = path.join(root, `node${i}`);
-    let socket = path.join(root, `node${i}.sock`);
-    if (socket.length > 100) socket = path.join("/tmp", `dutymark-galera-${process.pid}-${i}.sock`);
-    nodes.push({
-      name: `node${i}`,
-      dir,
-      socket,
-      pidFile: path.join(root, `node${i}.pid`),
-      logFile: path.join(root, `node${i}.err`),
-      port: await choosePort(`node${i}`, "client"),
-      gcommPort: await choosePort(`node${i}`, "group"),
-      istPort: await choosePort(`node${i}`, "IST"),
-      sstPort: await choosePort(`node${i}`, "SST"),
-      pid: 0,
-    });
+  // Every port of every node, a retry's too, comes from this cluster's book (db/galera-ports.mjs).
+  const ports = portBook(choosePort);
+  try {
+    for (let i = 1; i <= size; i++) {
+      const dir = path.join(root, `node${i}`);
+      let socket = path.join(root, `node${i}.sock`);
+      if (socket.length > 100) socket = path.join("/tmp", `dutymark-galera-${process.pid}-${i}.sock`);
+      nodes.push({
+        name: `node${i}`,
+        dir,
+        socket,
+        pidFile: path.join(root, `node${i}.pid`),
+        logFile: path.join(root, `node${i}.err`),
+        ...(await ports.node(`node${i}`)),
+        pid: 0,
+      });
+    }
+  } catch (e) {
+    await ports.releaseAll(); // the ports held so far, not left open in this process
+    throw e;
   }
   const clusterAddress = `gcomm://${nodes.map((n) => `127.0.0.1:${n.gcommPort}`).join(",")}`;
   // Seed every node with the same state instead of a network state transfer: node 1 bootstraps a
@@ -172,7 +179,7 @@ export async function startGaleraCluster(size = 3, { root = path.join(DATA_ROOT,
   // at the same position (Galera then transfers nothing, or the little that changed, by IST).
   const first = nodes[0];
   try {
-    await startNode(first, { bootstrap: true, clusterAddress, choosePort });
+    await startNode(first, { bootstrap: true, clusterAddress, ports });
     await stopNode(first);
     for (const node of nodes.slice(1)) {
       rmSync(node.dir, { recursive: true, force: true });
@@ -182,15 +189,17 @@ export async function startGaleraCluster(size = 3, { root = path.join(DATA_ROOT,
     rmSync(path.join(first.dir, "gvwstate.dat"), { force: true });
     for (const [i, node] of nodes.entries()) {
       const t0 = Date.now();
-      await startNode(node, { bootstrap: i === 0, clusterAddress, choosePort });
+      await startNode(node, { bootstrap: i === 0, clusterAddress, ports });
       log(`${node.name} synced on 127.0.0.1:${node.port} (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
       node.stop = (opts) => stopNode(node, opts);
-      node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true, choosePort });
+      node.start = () => startNode(node, { bootstrap: false, clusterAddress, recover: true, ports });
     }
   } catch (e) {
     // A node that did not join: the nodes already running are stopped, not left behind (they outlived a failed run).
     for (const n of [...nodes].reverse()) if (n.pid && pidAlive(n.pid)) process.kill(n.pid, "SIGKILL");
     throw e;
+  } finally {
+    await ports.releaseAll();
   }
   const size_ = wsrepStatus(nodes[0].socket, "wsrep_cluster_size");
   if (Number(size_) !== size) throw new Error(`the cluster has ${size_} nodes, expected ${size}`);
