@@ -1,7 +1,8 @@
 // A three-node MariaDB Galera cluster on loopback, from Debian's packages (mariadb-server depends
 // on galera-4 and rsync), for `npm run test:cluster`. Plain Node, no npm dependencies.
 // Each node: its own data directory under DATA_ROOT/galera/nodeN, its own socket, and four ports
-// the OS says are free (SQL, group communication, IST, SST). Node 1 bootstraps the cluster
+// the OS says are free (SQL, group communication, IST, SST), every port of every node a different one
+// (db/galera-ports.mjs: held until the node starts). Node 1 bootstraps the cluster
 // (--wsrep-new-cluster); nodes 2 and 3 start from a copy of its data directory and join it.
 import { spawn, spawnSync } from "node:child_process";
 import { cpSync, existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";

@@ -100,6 +100,29 @@ test("a node whose client port is taken before it binds starts again on other po
   expect(Number(sqlAt(n1.socket, "SELECT @@port").trim())).toBe(n1.port);
 }, 120_000);
 
+test("a chooser that gives node 2's IST port again for its SST port: node 2 gets another SST port, and the cluster comes up", async () => {
+  const root = newRoot();
+  const asked: string[] = [];
+  let ist = 0;
+  // As freePort() once did in CI (IST 34457, SST 34457): node 2's SST port first offered is its IST port.
+  const choosePort: PortChooser = async (node, role) => {
+    asked.push(`${node} ${role}`);
+    if (node === "node2" && role === "SST" && asked.filter((a) => a === "node2 SST").length === 1) return ist;
+    const port = await freePort();
+    if (node === "node2" && role === "IST") ist = port;
+    return port;
+  };
+  const cluster: Cluster = await startGaleraCluster(2, { root, choosePort });
+  clusters.push(cluster);
+  const n2 = cluster.nodes[1] as Cluster["nodes"][number] & { istPort: number; sstPort: number };
+  expect(asked.filter((a) => a === "node2 SST")).toHaveLength(2); // asked again after the repeat
+  expect(n2.istPort).toBe(ist);
+  expect(n2.sstPort).not.toBe(ist);
+  // Node 2 joined on its first ports: no listener of its own found its port taken (the CI run's "Failed to open IST listener").
+  expect(readFileSync(path.join(root, "node2.err"), "utf8")).not.toMatch(/Address already in use|Failed to open IST listener/);
+  for (const n of cluster.nodes) expect(wsrepStatus(n.socket, "wsrep_cluster_size")).toBe("2");
+}, 120_000);
+
 /** A two-node start expected to fail: the first line of its error (a cluster that started all the same is kept to be stopped). */
 async function failedStart(root: string, choosePort: PortChooser): Promise<string> {
   const failure = await startGaleraCluster(2, { root, choosePort }).then(
