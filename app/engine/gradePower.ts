@@ -19,7 +19,7 @@ import { EngineInputError, requireFinite, requireInRange, requireNonNegative, re
 import type { ToleranceGrade } from "./fieldCheck.ts";
 import { efficiencyAt, ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
-import { LIMIT_ROUNDING } from "./limitText.ts";
+import { gradeAllows } from "./limitText.ts";
 
 /** One of a grade's power or efficiency limits at the measured point. */
 export interface GradeLimitCheck {
@@ -44,23 +44,6 @@ export interface GradePowerCheck {
   /** False: a judged limit is missed; true: every judged limit is met (at least one judged); null: none judged. */
   pass: boolean | null;
 }
-
-/**
- * The allowance at a grade's limit, fraction points: 1 part in 10⁸ of the limit (limitText.ts `LIMIT_ROUNDING`), so a
- * deviation judged past prints apart from the limit beside it (at 1e-12 alone, +3 % + 2e-11 was "not met" as "+3.00000000 %"),
- * and 1e-12 at the least (the readings' conversions' rounding; a 0 % side). The tolerance cross's too (fieldCheck.ts, the
- * field-check pages' cross.ts and power-grade.ts; decision "pctlimit").
- * @param allowed the allowance on that side, a fraction ≥ 0 (dimensionless)
- */
-export const gradeSlack = (allowed: number): number => Math.max(1e-12, LIMIT_ROUNDING * Math.abs(allowed));
-/**
- * Whether a deviation (fraction) lies from −below to +above, each end to its {@link gradeSlack}.
- * @param deviation measured / curve − 1 (dimensionless)
- * @param below the allowance below, a fraction ≥ 0 (dimensionless)
- * @param above the allowance above, a fraction ≥ 0 (dimensionless)
- */
-export const gradeAllows = (deviation: number, below: number, above: number): boolean =>
-  deviation >= -below - gradeSlack(below) && deviation <= above + gradeSlack(above);
 
 function limit(measured: number, curve: number | null, allowed: number, side: "above" | "below"): GradeLimitCheck {
   const deviation = curve !== null && curve > 0 ? measured / curve - 1 : null;

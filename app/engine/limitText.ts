@@ -61,6 +61,23 @@ export const pastBelow = (x: number, limit: number): boolean => x < limit - LIMI
 export const insideEnds = (x: number, min: number, max: number): boolean => !pastBelow(x, min) && !pastAbove(x, max);
 
 /**
+ * The allowance at a grade's limit, fraction points: 1 part in 10⁸ of the limit ({@link LIMIT_ROUNDING}), so a
+ * deviation judged past prints apart from the limit beside it (at 1e-12 alone, +3 % + 2e-11 was "not met" as "+3.00000000 %"),
+ * and 1e-12 at the least (the readings' conversions' rounding; a 0 % side). The tolerance cross's too (fieldCheck.ts, the
+ * field-check pages' cross.ts and power-grade.ts; gradePower.ts; decision "pctlimit").
+ * @param allowed the allowance on that side, a fraction ≥ 0 (dimensionless)
+ */
+export const gradeSlack = (allowed: number): number => Math.max(1e-12, LIMIT_ROUNDING * Math.abs(allowed));
+/**
+ * Whether a deviation (fraction) lies from −below to +above, each end to its {@link gradeSlack}.
+ * @param deviation measured / curve − 1 (dimensionless)
+ * @param below the allowance below, a fraction ≥ 0 (dimensionless)
+ * @param above the allowance above, a fraction ≥ 0 (dimensionless)
+ */
+export const gradeAllows = (deviation: number, below: number, above: number): boolean =>
+  deviation >= -below - gradeSlack(below) && deviation <= above + gradeSlack(above);
+
+/**
  * Relative slack of an end typed as shown in another unit: the reader's own allowance at a range's end (lib/projects
  * run-ranges.ts `inside`), {@link LIMIT_ROUNDING}.
  */

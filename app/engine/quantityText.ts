@@ -12,7 +12,7 @@
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
 import { boundInward, groupThousands, MAX_SIGNIFICANT } from "./limitText.ts";
-export { boundInward, groupThousands, insideEnds, LIMIT_ROUNDING, MAX_SIGNIFICANT, pastAbove, pastBelow, THOUSANDS_SPACE } from "./limitText.ts";
+export { boundInward, gradeAllows, gradeSlack, groupThousands, insideEnds, LIMIT_ROUNDING, MAX_SIGNIFICANT, pastAbove, pastBelow, THOUSANDS_SPACE } from "./limitText.ts";
 export { fmtPct, fmtPctExact, fmtPctLimit, fmtPctSide, fmtPctSignedExact, pctLimitWithDecimals } from "./pctText.ts";
 
 /**

@@ -3,8 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit, fmtPctSide, qt } from "~/engine/quantityText";
-import { gradeAllows, gradeSlack } from "~/engine";
+import { fmtPctExact, fmtPctLimit, fmtPctSide, gradeAllows, gradeSlack, qt } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -21,7 +20,7 @@ export type CrossArm = {
 
 export type CrossExplanation = { grade: string; head: CrossArm; flow: CrossArm; passedOn: "head" | "flow" | "both" | "neither" };
 
-/** Fraction points within which a reading is on an arm's end: the engine's `gradeCross` allowance (gradePower.ts `gradeSlack`). */
+/** Fraction points within which a reading is on an arm's end: the engine's `gradeCross` allowance (limitText.ts `gradeSlack`). */
 const nearEnd = (deviation: number, end: number) => Math.abs(deviation - end) <= gradeSlack(end);
 
 function arm(name: "head" | "flow", curveValue: number | null, measured: number, deviation: number | null, allowed: readonly [number, number]): CrossArm {

@@ -1,7 +1,7 @@
 // A power or efficiency limit judged on its edge says so with the allowance's own number, and one missed by less than the
 // printed digits show says that, instead of "+4.000000 % ≤ +4 %" and "+4.000000 % > +4 %" (the same digits read both ways).
 // Check values: grade 1B's power +4 % and efficiency −3 % allowances (ISO 9906, from memory); the engine compares exactly
-// to 1e-12 at the least (gradePower.ts `gradeSlack`: 1e-8 of the allowance). The limits below are built by hand: measured
+// to 1e-12 at the least (limitText.ts `gradeSlack`: 1e-8 of the allowance). The limits below are built by hand: measured
 // and curve powers invented.
 import { describe, expect, test } from "vitest";
 import type { GradeLimitCheck } from "~/engine";

@@ -4,8 +4,8 @@
 // (a meter, the drive, or V·I·PF); the curve gives the pump's SHAFT power. They are compared only through the motor
 // efficiency the contractor entered (shaft = input × η_motor); without it power and efficiency are not judged, and
 // the check says so. Pure: evaluate.ts stores `PowerGrade` with the result, the page and the e-mail read the sentences.
-import { gradeAllows, gradeSlack, type GradeLimitCheck, type GradePowerCheck, type GradePowerWitness } from "~/engine";
-import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, qtPair, qt } from "~/engine/quantityText";
+import type { GradeLimitCheck, GradePowerCheck, GradePowerWitness } from "~/engine";
+import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, gradeAllows, gradeSlack, qtPair, qt } from "~/engine/quantityText";
 import type { PowerSI } from "./form";
 
 /** What a check judged of its grade's power and efficiency limits, stored with its result. */
