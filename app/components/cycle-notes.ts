@@ -4,7 +4,7 @@
 // maker's minimum continuous flow (engine stepPor.ts `step-below-maker-min-flow`) is a line of its own, in full. Pure.
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { NEVER_RUN_NOTE, STEP_MIN_FLOW_FRACTION, STEP_POR_CODES, STEP_POR_RULE, type DutyCycleResult, type StepResult } from "~/engine";
-import { fmtPctExact } from "~/engine/quantityText";
+import { fmtPctExact, pastBelow } from "~/engine/quantityText";
 import { fmtNum } from "~/lib/shared/units";
 import { amountText } from "~/components/energy-numbers";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/lib/projects/energy";
@@ -41,7 +41,7 @@ export function cycleNoteLines(cycle: Cycle): string[] {
       const ratio = bepNoteOf(w);
       if (ratio === null) lines.push(`Step at ${stepName(s)}: ${neverRunMarked(w.message, s.hours)}.`); // a 0 h step's note: information only
       else {
-        const low = ratio < STEP_MIN_FLOW_FRACTION;
+        const low = pastBelow(ratio, STEP_MIN_FLOW_FRACTION); // as the engine's note (stepPor.ts): to 1 part in 10⁸
         belowMin ||= low;
         const m = (w as { makerMinFlow?: unknown }).makerMinFlow;
         if (low && m !== undefined) maker = typeof m === "number" ? "recorded" : "none";

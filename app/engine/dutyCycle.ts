@@ -58,7 +58,7 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pastBelow, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
@@ -356,8 +356,9 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (eta === null) eta = (rho * G0 * q * head) / shaft;
     const x = shaft / rating;
     // `parameter` names the step (profile[i]), so a page can show the warning at it.
-    // (1e-9: a load computed a rounding error below 10 %, as 75 W / 750 W at half speed, is 10 %.)
-    if (x < MOTOR_PART_LOAD[0][0] * (1 - 1e-9)) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
+    // (1 part in 10⁸, LIMIT_ROUNDING: a load computed a rounding error below 10 %, as 75 W / 750 W at half speed, is 10 %,
+    // and one called below prints apart from it; at 1e-9 "9.99999999 %" of 10 % read "10.0000000 %".)
+    if (pastBelow(x, MOTOR_PART_LOAD[0][0])) warnings.push({ code: "motor-very-light-load", parameter: `profile[${i}]`, message: `at ${Math.round(s.flowFraction * 100)} % flow ${theMotor} runs at ${fmtPctExact(x, [MOTOR_PART_LOAD[0][0]])} load: part-load efficiencies below 10 % load are taken at their 10 % values` });
     // Above rating × service factor the motor overloads at this step (a drive run faster than the candidate's set speed,
     // or a flow past the design flow): said with the numbers, the energy still counted at the full-load efficiency.
     // The service factor is a limit, as given (fmtPctLimit: 1.155 → "115.5 %"); the load to its decimals at the least, apart from it.

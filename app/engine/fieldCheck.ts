@@ -19,7 +19,7 @@ import { gradePower, type GradePowerCheck } from "./gradePower.ts";
 import { ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { fmtPctExact, fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
+import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, gradeAllows } from "./quantityText.ts";
 
 /** An acceptance grade: allowed deviations as fractions, [below, above]. */
 export interface ToleranceGrade {
@@ -226,11 +226,11 @@ export function gradeCross(curve: PumpCurve | PumpCurveInput, flow: number, head
   requireNonNegative("flow", flow);
   requirePositive("head", head);
   checkGrade(grade);
-  const eps = 1e-12;
   const arm = (curveValue: number | null, measured: number, allowed: readonly [number, number]): GradeArm => {
     const deviation = curveValue !== null && curveValue > 0 ? measured / curveValue - 1 : null;
     const margin = deviation === null ? null : Math.min(deviation + allowed[0], allowed[1] - deviation);
-    return { curveValue, deviation, allowed, pass: margin !== null && margin >= -eps, margin };
+    // Each end to limitText.ts `gradeSlack` (1 part in 10⁸ of it, 1e-12 at the least): one judged past prints apart.
+    return { curveValue, deviation, allowed, pass: deviation !== null && gradeAllows(deviation, allowed[0], allowed[1]), margin };
   };
   const headArm = arm(evalCubic(c.head, flow), head, grade.head);
   const flowArm = arm(curveFlowFor(c, () => head), flow, grade.flow);

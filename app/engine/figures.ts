@@ -16,7 +16,7 @@ import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
-import { fmtNumExact, fmtPctExact, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtNumExact, fmtPctExact, insideEnds, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -250,7 +250,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
   if (!c.bep) for (const w of c.warnings) if (w.code === "bep-not-published") warnings.push(w);
   const bep = c.bep;
   const bepRatio = bep ? flow / bep.flow : null;
-  const inPor = c.por ? flow >= c.por.min && flow <= c.por.max : null;
+  const inPor = c.por ? insideEnds(flow, c.por.min, c.por.max) : null; // its ends to 1 part in 10⁸: a flow called outside prints apart
   if (inPor === false) warnings.push({ code: "outside-por", message: `operating at ${fmtPctExact(bepRatio ?? 0, [0.7, 1.2], 0)} of BEP flow, outside the preferred operating region (70–120 %)` });
 
   let npsh: OperatingFigures["npsh"] = null;

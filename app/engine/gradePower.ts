@@ -19,6 +19,7 @@ import { EngineInputError, requireFinite, requireInRange, requireNonNegative, re
 import type { ToleranceGrade } from "./fieldCheck.ts";
 import { efficiencyAt, ensurePumpCurve, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
+import { gradeAllows } from "./limitText.ts";
 
 /** One of a grade's power or efficiency limits at the measured point. */
 export interface GradeLimitCheck {
@@ -44,12 +45,9 @@ export interface GradePowerCheck {
   pass: boolean | null;
 }
 
-/** The comparison is exact to this (fraction), as the tolerance cross's (fieldCheck.ts). */
-const EPS = 1e-12;
-
 function limit(measured: number, curve: number | null, allowed: number, side: "above" | "below"): GradeLimitCheck {
   const deviation = curve !== null && curve > 0 ? measured / curve - 1 : null;
-  const pass = deviation === null ? null : side === "above" ? deviation <= allowed + EPS : deviation >= -allowed - EPS;
+  const pass = deviation === null ? null : side === "above" ? gradeAllows(deviation, Infinity, allowed) : gradeAllows(deviation, allowed, Infinity);
   return { measured, curve, deviation, allowed, pass };
 }
 

@@ -20,7 +20,7 @@
  * over 50 years, 17.9 %/year over 15.)
  */
 import { EngineInputError, requireFinite, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { fmtNumExact, fmtPctLimit, fmtPctSignedExact } from "./quantityText.ts";
+import { fmtNumExact, fmtPctLimit, fmtPctSignedExact, pastAbove } from "./quantityText.ts";
 
 export const LCC_SOURCE = "present-value method (ISO 15686-5, from memory; common practice for pump life-cycle cost): LCC = purchase + Σ C₁(1+e)^(t−1)/(1+d)^t, end-of-year costs; maintenance and disposal not included";
 
@@ -74,9 +74,9 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   if (years < 2) return [];
   const { rate, growth } = ESCALATION_PLAUSIBLE;
   const g = (1 + escalation) ** (years - 1);
-  // A value within print rounding of its bound is the bound (1e-7 of the rate, 1e-9 of the growth: fmtPctExact shows up to
-  // 6 decimals of a per cent, fmtNumExact 9 digits), so a value called beyond it always prints apart from it.
-  const rateOut = Math.abs(escalation) > rate * (1 + 1e-7);
+  // A value within print rounding of its bound is the bound (1 part in 10⁸ of the rate, LIMIT_ROUNDING: fmtPctExact shows
+  // 9 significant digits beside it; 1e-9 of the growth: fmtNumExact 9 digits), so a value called beyond it prints apart.
+  const rateOut = pastAbove(Math.abs(escalation), rate);
   const growthOut = g > growth * (1 + 1e-9) || g < (1 / growth) * (1 - 1e-9);
   if (!rateOut && !growthOut) return [];
   // A falling tariff's rate with the true minus "−", as its bound beside it (fmtPctSignedExact).

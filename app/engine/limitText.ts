@@ -31,11 +31,52 @@ export const MAX_SIGNIFICANT = 9;
  * 12.0 m³/h" in m³/h, "3.33333333 L/s < 3.33333333 L/s" in L/s. Shared by the NPSHr curve's ends (npshrEnds.ts), the maker's
  * minimum flow (stepPor.ts, lib/projects/verdict-min-flow.ts), the entry ranges (lib/projects/duty-ranges.ts), a duty-cycle
  * step's head against the system's (dutyCycle.ts), the motor's limit and the IEC table's entries (motor.ts `COVERS_SLACK`,
- * `motorEfficiency`) and a run's bore against its table's (lib/projects/system-input.ts, preview-input.ts). Not for a limit
- * its words print as a percentage (fmtPctExact: at most 6 decimals of a per cent, coarser than this near a small limit).
- * Tests: lib/projects/limit-rounding.test.ts, engine/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts.
+ * `motorEfficiency`) and a run's bore against its table's (lib/projects/system-input.ts, preview-input.ts); and every limit
+ * printed as a percentage (pctText.ts `fmtPctExact` gives a value its limits' 9 significant digits; {@link pastAbove},
+ * {@link pastBelow}, {@link insideEnds}: the duty check's 3 %, the POR's 70–120 %, a step's 50 % of BEP flow, a motor's
+ * 10 % light load, the escalation's ±15 %/year, the life-cycle rates' ends; decision "pctlimit").
+ * Tests: lib/projects/limit-rounding.test.ts, engine/limit-rounding.test.ts, engine/npshr-end-rounding.test.ts,
+ * engine/pct-limits.test.ts, lib/projects/pct-limits.test.ts.
  */
 export const LIMIT_ROUNDING = 1e-8;
+/**
+ * Whether `x` is past `limit` above it, by more than {@link LIMIT_ROUNDING} of the limit (within it, at the limit): the
+ * judgement a value printed beside its limit needs so that one judged past prints apart from it (decision "pctlimit").
+ * @param x the value (any unit)
+ * @param limit the limit (same unit)
+ */
+export const pastAbove = (x: number, limit: number): boolean => x > limit + LIMIT_ROUNDING * Math.abs(limit);
+/**
+ * Whether `x` is past `limit` below it, by more than {@link LIMIT_ROUNDING} of the limit (within it, at the limit).
+ * @param x the value (any unit)
+ * @param limit the limit (same unit)
+ */
+export const pastBelow = (x: number, limit: number): boolean => x < limit - LIMIT_ROUNDING * Math.abs(limit);
+/**
+ * Whether `x` lies from `min` to `max`, each end to {@link LIMIT_ROUNDING} of it ({@link pastBelow}, {@link pastAbove}).
+ * @param x the value (any unit)
+ * @param min the lower end (same unit)
+ * @param max the upper end (same unit)
+ */
+export const insideEnds = (x: number, min: number, max: number): boolean => !pastBelow(x, min) && !pastAbove(x, max);
+
+/**
+ * The allowance at a grade's limit, fraction points: 1 part in 10⁸ of the limit ({@link LIMIT_ROUNDING}), so a
+ * deviation judged past prints apart from the limit beside it (at 1e-12 alone, +3 % + 2e-11 was "not met" as "+3.00000000 %"),
+ * and 1e-12 at the least (the readings' conversions' rounding; a 0 % side). The tolerance cross's too (fieldCheck.ts, the
+ * field-check pages' cross.ts and power-grade.ts; gradePower.ts; decision "pctlimit").
+ * @param allowed the allowance on that side, a fraction ≥ 0 (dimensionless)
+ */
+export const gradeSlack = (allowed: number): number => Math.max(1e-12, LIMIT_ROUNDING * Math.abs(allowed));
+/**
+ * Whether a deviation (fraction) lies from −below to +above, each end to its {@link gradeSlack}.
+ * @param deviation measured / curve − 1 (dimensionless)
+ * @param below the allowance below, a fraction ≥ 0 (dimensionless)
+ * @param above the allowance above, a fraction ≥ 0 (dimensionless)
+ */
+export const gradeAllows = (deviation: number, below: number, above: number): boolean =>
+  deviation >= -below - gradeSlack(below) && deviation <= above + gradeSlack(above);
+
 /**
  * Relative slack of an end typed as shown in another unit: the reader's own allowance at a range's end (lib/projects
  * run-ranges.ts `inside`), {@link LIMIT_ROUNDING}.

@@ -89,8 +89,8 @@ describe("dead-head: shut-off head equal to the system's head at zero flow", () 
     expect(r.message).toBe("Operating point found");
     expect(r.warnings.map((w) => w.code)).not.toContain("dead-head");
   });
-  it("a share that reads as zero at 6 decimals says so as a bound, never '0.000000 %' (definition)", () => {
-    expect(fmtPctExact(2.5e-9, [0.7, 1.2], 0)).toBe("under 0.000001 %"); // old code: "0.000000 %"
+  it("a share that reads as zero at 6 decimals reads in exponent form, never '0.000000 %' nor a bound in words (definition, decision \"pctlimit\")", () => {
+    expect(fmtPctExact(2.5e-9, [0.7, 1.2], 0)).toBe("2.50e-7 %"); // older code: "0.000000 %", then "under 0.000001 %"
     expect(fmtPctExact(3e-8, [0.7, 1.2], 0)).toBe("0.000003 %");
   });
 });

@@ -12,7 +12,8 @@
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
 import { boundInward, groupThousands, MAX_SIGNIFICANT } from "./limitText.ts";
-export { boundInward, groupThousands, LIMIT_ROUNDING, MAX_SIGNIFICANT, THOUSANDS_SPACE } from "./limitText.ts";
+export { boundInward, gradeAllows, gradeSlack, groupThousands, insideEnds, LIMIT_ROUNDING, MAX_SIGNIFICANT, pastAbove, pastBelow, THOUSANDS_SPACE } from "./limitText.ts";
+export { fmtPct, fmtPctExact, fmtPctLimit, fmtPctSide, fmtPctSignedExact, pctLimitWithDecimals } from "./pctText.ts";
 
 /**
  * Matches one token: quantity name (letters), a number as written by {@link qt} (or NaN) and, from
@@ -226,81 +227,6 @@ export function fmtExpExact(x: number | null | undefined, against: readonly numb
   let d = digits;
   while (d < 12 && against.some((a) => a !== x && Number(x.toExponential(d)) === Number(a.toExponential(d)))) d++;
   return x.toExponential(d);
-}
-
-/**
- * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %"; "—" when missing.
- * @param x the fraction (dimensionless)
- * @param digits decimals (count)
- */
-export function fmtPct(x: number | null | undefined, digits = 1): string {
-  return x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`;
-}
-
-/**
- * A fraction as a percentage in a text that compares it with thresholds: as fmtPct, with more decimals
- * (up to 6) while it would read the same as one of `against`, or as zero, though it is not, so a value
- * judged outside a limit never reads as the limit ("99.96 %" beside a limit of 100 %, not "100.0 %"); a value still
- * reading as zero at 6 decimals reads "under 0.000001 %".
- * @param x the fraction (dimensionless)
- * @param against the thresholds it is compared with (fractions, dimensionless)
- * @param digits decimals at the least (count)
- */
-export function fmtPctExact(x: number | null | undefined, against: readonly number[] = [], digits = 1): string {
-  if (x == null || !Number.isFinite(x)) return "—";
-  const shown = (v: number, d: number) => Number((v * 100).toFixed(d)); // -0 and 0 read the same
-  let d = digits;
-  while (d < 6 && [0, ...against].some((a) => a !== x && shown(a, d) === shown(x, d))) d++;
-  // Still zero at 6 decimals though it is not: said as a bound ("under 0.000001 %"), never "0.000000 %".
-  if (x !== 0 && shown(x, d) === 0) return `${x < 0 ? "−" : ""}under ${fmtPct(10 ** -(d + 2), d)}`;
-  return fmtPct(x, d);
-}
-
-/**
- * A signed fraction as a percentage with the true minus sign "−" (U+2212) and, with `plus`, a "+" for the rest; the
- * decimals as {@link fmtPctExact}, apart from the sizes in `against` (compared by size): "−3.01 %", "+12.0 %".
- * @param x the fraction (dimensionless)
- * @param against values it must not read as (fractions; their sign is ignored)
- * @param plus write "+" before a value ≥ 0 (a flag, unitless)
- */
-export function fmtPctSignedExact(x: number | null | undefined, against: readonly number[] = [], plus = false): string {
-  if (x == null || !Number.isFinite(x)) return "—";
-  return `${x < 0 ? "−" : plus ? "+" : ""}${fmtPctExact(Math.abs(x), against.map(Math.abs))}`;
-}
-
-/** Decimals of a percentage a limit is shown to at most (count): 0.000001 %, more than a form keeps (the system editor's 4). */
-const LIMIT_PCT_DECIMALS = 6;
-
-/**
- * A threshold as a percentage with the decimals it needs (at most 6, no trailing zeros): a tolerance or a
- * range end as typed, e.g. 0.025 → "2.5 %", 0.011 → "1.1 %", 0.1 → "10 %", 0.0000125 → "0.00125 %" (a limit
- * that is not zero never reads "0 %"; below 0.000001 % it gets 3 significant digits).
- * @param x the fraction (dimensionless)
- */
-export function fmtPctLimit(x: number): string {
-  if (!Number.isFinite(x)) return "—";
-  const shown = Number((x * 100).toFixed(LIMIT_PCT_DECIMALS));
-  return `${shown === 0 && x !== 0 ? (x * 100).toPrecision(TINY_SIGNIFICANT) : shown} %`; // Number(): "-0" reads "0"
-}
-
-/**
- * A limit as a percentage (`fmtPctLimit`) and the decimals it is written to, for a value shown beside it to at least
- * as many: a service factor 1.155 → { text: "115.5 %", decimals: 1 }.
- * @param x the fraction (dimensionless)
- */
-export function pctLimitWithDecimals(x: number): { text: string; decimals: number } {
-  const text = fmtPctLimit(x);
-  return { text, decimals: (/\.(\d+)/.exec(text)?.[1] ?? "").length };
-}
-
-/**
- * One side of a tolerance, with its sign: "−2.5 %", "+10 %", and "0 %" for none (never "−0 %", which reads as a
- * signed zero beside the limit it gives).
- * @param x the allowance on that side, a fraction ≥ 0 (dimensionless)
- * @param side "−" below, "+" above (unitless)
- */
-export function fmtPctSide(x: number, side: "−" | "+"): string {
-  return x === 0 ? "0 %" : `${side}${fmtPctLimit(x)}`;
 }
 
 /**

@@ -17,6 +17,8 @@
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
+import { insideEnds } from "./limitText.ts";
+import { POR_FRACTION } from "./pumpCurve.ts";
 import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
 import { evalNpshrPacked, evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
 import { explainRanks } from "./searchExplain.ts";
@@ -192,7 +194,7 @@ export function searchDuty(
       id: ids[e], label: idx.labels[e], method, ratio,
       diameter: idx.diameter[e] < 0 ? null : method === "trim" ? idx.diameter[e] * ratio : idx.diameter[e],
       speed: idx.speed[e] < 0 ? null : method === "speed" ? idx.speed[e] * ratio : idx.speed[e],
-      headAtDuty: fHead[j], efficiency: fEff[j], bepRatio, inPor: bepRatio === null ? null : bepRatio >= 0.7 && bepRatio <= 1.2,
+      headAtDuty: fHead[j], efficiency: fEff[j], bepRatio, inPor: bepRatio === null ? null : insideEnds(bepRatio, POR_FRACTION.min, POR_FRACTION.max),
       npshr: fNpshr[j], npshMargin: fMargin[j], shaftPower: fPower[j], score: score[j], rank: 0, reason: "", warnings,
     };
   });

@@ -22,7 +22,7 @@
  */
 import type { EngineWarning } from "./errors.ts";
 import { POR_FRACTION, type PumpCurve } from "./pumpCurve.ts";
-import { fmtPct, fmtPctExact, LIMIT_ROUNDING, qt, qtPair } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, insideEnds, LIMIT_ROUNDING, pastBelow, qt, qtPair } from "./quantityText.ts";
 
 /** Below this fraction of BEP flow: a common lower bound for continuous running (common practice, from memory). */
 export const STEP_MIN_FLOW_FRACTION = 0.5;
@@ -111,8 +111,8 @@ export function stepPorWarning(input: StepPorInput): StepPorWarning | StepMakerM
   if (!bep) return null;
   const bepFlow = (bep.flow / per) * speed; // affinity laws: Q_BEP ∝ N
   const ratio = share / bepFlow;
-  if (ratio >= POR_FRACTION.min && ratio <= POR_FRACTION.max) return null;
-  const low = ratio < STEP_MIN_FLOW_FRACTION;
+  if (insideEnds(ratio, POR_FRACTION.min, POR_FRACTION.max)) return null; // each end to 1 part in 10⁸, as the verdict's POR
+  const low = pastBelow(ratio, STEP_MIN_FLOW_FRACTION);
   const pct = fmtPctExact(ratio, [POR_FRACTION.min, POR_FRACTION.max, STEP_MIN_FLOW_FRACTION], 0);
   const [q, qb] = qtPair("flow", share, bepFlow);
   const bepWords = input.vfd ? `its BEP flow at ${fmtPct(speed)} speed, ${qb} (${qtPair("flow", bep.flow / per, share)[0]} at the curve's speed × ${fmtPct(speed)}, affinity laws)` : `its BEP flow, ${qb}`;

@@ -3,7 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit, fmtPctSide, qt } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSide, gradeAllows, gradeSlack, qt } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -20,12 +20,12 @@ export type CrossArm = {
 
 export type CrossExplanation = { grade: string; head: CrossArm; flow: CrossArm; passedOn: "head" | "flow" | "both" | "neither" };
 
-/** Fraction points within which a reading counts as on the arm's edge (rounding of the readings' conversions): the engine's `gradeCross` allowance. */
-const EDGE = 1e-12;
+/** Fraction points within which a reading is on an arm's end: the engine's `gradeCross` allowance (limitText.ts `gradeSlack`). */
+const nearEnd = (deviation: number, end: number) => Math.abs(deviation - end) <= gradeSlack(end);
 
 function arm(name: "head" | "flow", curveValue: number | null, measured: number, deviation: number | null, allowed: readonly [number, number]): CrossArm {
   const margin = deviation === null ? null : Math.min(deviation + allowed[0], allowed[1] - deviation);
-  return { arm: name, curveValue, measured, deviation, allowed, pass: margin !== null && margin >= -EDGE, margin };
+  return { arm: name, curveValue, measured, deviation, allowed, pass: deviation !== null && gradeAllows(deviation, allowed[0], allowed[1]), margin };
 }
 
 /** Null without a flow meter (no verdict) or without a delivered flow. */
@@ -48,8 +48,8 @@ export function crossOf(r: Pick<CheckResult, "engine" | "delivered" | "deviation
 const pc = (x: number, allowed: readonly [number, number]) => `${x >= 0 ? "+" : "−"}${fmtPctExact(Math.abs(x), allowed)}`;
 const tol = (a: readonly [number, number]) => `${fmtPctSide(a[0], "−")} to ${fmtPctSide(a[1], "+")}`; // grade 1U's flow: "0 % to +10 %", not "−0 %"
 
-/** Whether an arm is met on its edge, within the rounding allowance (`EDGE`): said with the limit's own number. */
-const onEdge = (a: CrossArm) => a.pass && a.margin !== null && Math.abs(a.margin) <= EDGE;
+/** Whether an arm is met on its edge, within the rounding allowance (`gradeSlack`): said with the limit's own number. */
+const onEdge = (a: CrossArm) => a.pass && a.deviation !== null && (nearEnd(a.deviation, a.allowed[1]) || nearEnd(a.deviation, -a.allowed[0]));
 
 /**
  * One arm's deviation from the curve as the verdict reads it: signed, with the decimals that keep it apart from the arm's

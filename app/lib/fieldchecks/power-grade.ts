@@ -5,7 +5,7 @@
 // efficiency the contractor entered (shaft = input × η_motor); without it power and efficiency are not judged, and
 // the check says so. Pure: evaluate.ts stores `PowerGrade` with the result, the page and the e-mail read the sentences.
 import type { GradeLimitCheck, GradePowerCheck, GradePowerWitness } from "~/engine";
-import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, qtPair, qt } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, gradeAllows, gradeSlack, qtPair, qt } from "~/engine/quantityText";
 import type { PowerSI } from "./form";
 
 /** What a check judged of its grade's power and efficiency limits, stored with its result. */
@@ -68,8 +68,6 @@ const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], t
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 
-/** The engine's rounding allowance on a limit (gradePower.ts EPS, a fraction): a deviation this close to the allowance is on it. */
-const EDGE = 1e-12;
 /** Below this (a fraction, 0.000001 percentage points) a deviation past its allowance prints with the allowance's digits. */
 const UNSEEN = 1e-8;
 
@@ -90,7 +88,7 @@ function compared(x: GradeLimitCheck & { deviation: number; pass: boolean }, sid
 /** "at": met on the allowance within the rounding allowance; "unseen": missed by less than the printed digits show; else null. */
 function edgeOf(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−"): "at" | "unseen" | null {
   const margin = side === "+" ? x.allowed - x.deviation : x.deviation + x.allowed; // inside ≥ 0
-  return x.pass && Math.abs(margin) <= EDGE ? "at" : !x.pass && -margin < UNSEEN ? "unseen" : null;
+  return x.pass && Math.abs(margin) <= gradeSlack(x.allowed) ? "at" : !x.pass && -margin < UNSEEN ? "unseen" : null;
 }
 
 /**
@@ -170,7 +168,7 @@ function atLowest(c: GradePowerCheck, a: number): Pick<GradePowerCheck, "power" 
   const move = (x: GradeLimitCheck | null, factor: number, side: "above" | "below"): GradeLimitCheck | null => {
     if (!x || x.deviation === null || x.curve === null) return x;
     const deviation = (1 + x.deviation) * factor - 1;
-    return { ...x, measured: x.measured * factor, deviation, pass: side === "above" ? deviation <= x.allowed + 1e-12 : deviation >= -x.allowed - 1e-12 };
+    return { ...x, measured: x.measured * factor, deviation, pass: side === "above" ? gradeAllows(deviation, Infinity, x.allowed) : gradeAllows(deviation, x.allowed, Infinity) };
   };
   return { power: move(c.power, 1 - a, "above"), efficiency: move(c.efficiency, 1 / (1 - a), "below") };
 }

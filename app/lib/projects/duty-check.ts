@@ -1,7 +1,7 @@
 // The typed duty head against the system's own head at the duty flow (the duty check shown beside the duty), and
 // where the system needs no pump head there, why: its parts with their numbers. Pure.
 import { systemHead, systemHeadFunction, type prepareSystem, type SystemCase } from "~/engine";
-import { fmtPctSignedExact, qt } from "~/engine/quantityText";
+import { fmtPctSignedExact, pastAbove, qt } from "~/engine/quantityText";
 import { GOVERNING_CASE, governingName } from "./candidate-judgement";
 import type { SystemInput } from "./system-input";
 
@@ -74,7 +74,8 @@ export function dutyCheckOf(input: SystemInput, prepared: Prepared): DutyCheck |
   // Downhill (the system's head at the duty flow ≤ 0): no pump head is needed, so a percentage of it means nothing.
   const downhill = governingHead <= 0;
   const difference = downhill ? null : (input.duty.head - governingHead) / governingHead;
-  const differs = difference === null || Math.abs(difference) > DUTY_HEAD_THRESHOLD * (1 + 1e-9);
+  // Past 3 % by more than 1 part in 10⁸ (LIMIT_ROUNDING; within it, at 3 %), so a difference called past prints apart from it.
+  const differs = difference === null || pastAbove(Math.abs(difference), DUTY_HEAD_THRESHOLD);
   const q = qt("flow", input.duty.flow);
   const none = downhill ? noHeadNeeded(input, prepared, input.duty.flow) : null;
   const message = none

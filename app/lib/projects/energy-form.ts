@@ -2,7 +2,7 @@
 // Percent in the form, fractions in the document; hours per year as typed. Pure (browser and server).
 import { countField, decimalField, decimalMessage, readDecimal } from "../shared/decimal";
 import { DEFAULT_ENERGY_SETTINGS, MAX_LCC_YEARS, MAX_PROFILE_STEPS, MIN_LCC_YEARS, type EnergySettings } from "./energy";
-import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateKept, rateRefusal, rateTaken, type RateRange } from "./lcc-ranges";
 
 type FormLike = { get(name: string): FormDataEntryValue | null; keys?(): Iterable<string> };
 
@@ -64,8 +64,8 @@ export function readEnergyForm(f: FormLike, errors: Record<string, string>, curr
       return 0;
     }
     const x = d.value / 100;
-    if (x < r.min || x > r.max) errors[key] ??= rateRefusal(r, x);
-    return x;
+    if (!rateTaken(r, x)) errors[key] ??= rateRefusal(r, x);
+    return rateKept(r, x);
   };
   return {
     control,

@@ -26,7 +26,7 @@ import {
 import { LIMIT_ROUNDING, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { lccRangeNote } from "./lcc-range-note";
-import { DISCOUNT_RANGE, ESCALATION_RANGE, rateRefusal, type RateRange } from "./lcc-ranges";
+import { DISCOUNT_RANGE, ESCALATION_RANGE, rateKept, rateRefusal, rateTaken, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { HOURS_IN_YEAR, stepPastYear, stepsOverYear, yearHoursRefusal } from "./year-hours";
 export { HOURS_PER_YEAR_MAX, stepPastYear, stepsOverYear } from "./year-hours";
@@ -48,17 +48,13 @@ export const MAX_LCC_YEARS = 50;
 /** A life-cycle rate in the schema: the form's words (lcc-ranges.ts) for every refusal. */
 const rate = (r: RateRange) => {
   const words = (i: { input: unknown }) => rateRefusal(r, typeof i.input === "number" ? i.input : null);
-  return v.pipe(v.number(words), v.check((x) => Number.isFinite(x) && x >= r.min && x <= r.max, words));
+  return v.pipe(v.number(words), v.check((x) => rateTaken(r, x), words), v.transform((x) => rateKept(r, x)));
 };
 
-/** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends). */
+/** A step's flow outside 0 to 150 % of the duty, with the one sent (fraction; grouped as every range's ends; a negative one too
+ * small for a per cent's decimals in exponent form, "not −1.00e-7 %", quantityText.ts `fmtPctExact`). */
 const stepFlowRefusal = (x: number) =>
-  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${x < 0 ? negativePct(x) : groupThousands(fmtPctSignedExact(x, [MAX_FLOW_FRACTION]))}.`;
-/** A negative fraction as a per cent ("−5.0 %"); one the per cent's decimals cannot show to 3 significant digits ("−1e-7 %", never "−under 0.000001 %"). */
-const negativePct = (x: number) => {
-  const t = fmtPctSignedExact(x, [0]);
-  return /under/.test(t) ? `${String(Number((x * 100).toPrecision(3))).replace("-", "−")} %` : groupThousands(t);
-};
+  `A step's flow must be from 0 % (no demand, the pump stopped) to ${fmtPctLimit(MAX_FLOW_FRACTION)} of the duty flow, not ${groupThousands(fmtPctSignedExact(x, [x < 0 ? 0 : MAX_FLOW_FRACTION]))}.`;
 /** Life-cycle years not a whole number from MIN_LCC_YEARS to MAX_LCC_YEARS, with the years sent. */
 const yearsRefusal = (x: number) => `Years (life-cycle cost) must be a whole number from ${MIN_LCC_YEARS} to ${MAX_LCC_YEARS}, not ${groupThousands(String(x))}.`;
 

@@ -7,7 +7,7 @@
 // Only steps with hours that are priced (counted and run: a 0 h step never runs, decision "npshzero"). Pure; quantities
 // as tokens (quantityText.ts), rendered by the caller's `renderDeep` with the rest of the energy.
 import { COUNTED_STEP_STATUSES, STEP_BELOW_MAKER_MIN_FLOW, STEP_MIN_FLOW_FRACTION } from "~/engine";
-import { fmtPctExact, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
+import { fmtPctExact, pastBelow, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 
 type CycleLike = {
   steps: readonly { flowFraction: number; hours: number; status: string }[];
@@ -28,7 +28,7 @@ function outsideSteps(cycle: CycleLike): { maker: string[]; bep: string[] } {
     if (w.code === STEP_BELOW_MAKER_MIN_FLOW) {
       const nums = typeof w.pumpFlow === "number" && typeof w.makerMinFlow === "number" ? qtPair("flow", w.pumpFlow, w.makerMinFlow) : null;
       out.maker.push(nums ? `${stepWords(s)}: ${nums[0]} a pump < ${nums[1]}` : stepWords(s));
-    } else if (w.code === "step-below-min-flow" && typeof w.bepRatio === "number" && w.bepRatio < STEP_MIN_FLOW_FRACTION) {
+    } else if (w.code === "step-below-min-flow" && typeof w.bepRatio === "number" && pastBelow(w.bepRatio, STEP_MIN_FLOW_FRACTION)) {
       const pct = fmtPctExact(w.bepRatio, [STEP_MIN_FLOW_FRACTION], 0);
       // One pump's flow told apart from the BEP flow and from half of it (the rule's limit), the BEP flow apart from it.
       const nums = typeof w.pumpFlow === "number" && typeof w.bepFlow === "number" ? [qtExact("flow", w.pumpFlow, [w.bepFlow, w.bepFlow * STEP_MIN_FLOW_FRACTION]), qtLimit("flow", w.bepFlow, [w.pumpFlow])] : null;
