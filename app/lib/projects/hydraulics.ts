@@ -39,6 +39,7 @@ import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
 import { minFlowCheck, type MinFlowCheck } from "./verdict-min-flow";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtAboveZero, qtPair } from "~/engine/quantityText";
+import { marginRatioText } from "./npsh-ratio";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
 import { npshrPublished, samplesWithNpshrEnds } from "./npshr-reach";
@@ -338,7 +339,7 @@ export function evaluateCandidate(
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
     warnings.push(npsh.marginRatio == null
       ? `NPSH at ${npsh.at}: NPSHa ${qtAboveZero("head", npsh.available ?? NaN, [])} is not above zero: cavitation risk whatever the pump's NPSHr`
-      : `NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
+      : `NPSH at ${npsh.at}: margin ratio ${marginRatioText(npsh.marginRatio, input.npshMargin)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat
     ? {
