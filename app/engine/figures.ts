@@ -16,7 +16,8 @@ import { evalCubic } from "./interp.ts";
 import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficiencyPoint, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
-import { fmtNumExact, fmtPctExact, insideEnds, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtPctExact, insideEnds, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
+import { npshRatioBelow, npshRatioText } from "./npshRatio.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -107,7 +108,7 @@ export type NpshStatus = "ok" | "low-margin" | "cavitation-risk" | "unknown";
 
 /**
  * NPSH status from the margin ratio NPSHa/NPSHr (common practice): below 1 a cavitation risk, below the wanted
- * margin a low margin, else ok; unknown without a ratio.
+ * margin a low margin, else ok; unknown without a ratio. "Below" by more than 1 part in 10⁸ (npshRatio.ts `npshRatioBelow`).
  * @param marginRatio NPSHa / NPSHr (dimensionless), null when NPSHr is not known
  * @param requiredMargin the wanted ratio (dimensionless, ≥ 1)
  */
@@ -115,7 +116,7 @@ export function npshStatus(marginRatio: number | null, requiredMargin: number): 
   if (marginRatio === null) return "unknown";
   requireFinite("marginRatio", marginRatio);
   requirePositive("requiredMargin", requiredMargin);
-  return marginRatio < 1 ? "cavitation-risk" : marginRatio < requiredMargin ? "low-margin" : "ok";
+  return npshRatioBelow(marginRatio, 1) ? "cavitation-risk" : npshRatioBelow(marginRatio, requiredMargin) ? "low-margin" : "ok";
 }
 
 /**
@@ -273,7 +274,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
         // NPSHa at or below zero decides alone, NPSHr known or not (the liquid would boil at the inlet whatever the pump):
         // read by NPSHa, as the band's corners are, never as "below NPSHr".
         : `NPSHa ${qtAboveZero("head", available, [])} is not above zero: cavitation risk whatever the pump${required === null ? " (the curve has no NPSHr at this flow)" : "'s NPSHr"}` });
-    else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${fmtNumExact(marginRatio, [1, requiredMargin], 2)} is below the required ${requiredMargin}` });
+    else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${npshRatioText(marginRatio, requiredMargin)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: required === null ? "curve has no NPSHr at this flow" : `the curve's NPSHr here, ${qt("head", required)}, is too small to judge NPSHa ${qtAboveZero("head", available, [])} against (NPSHa / NPSHr is no finite number): NPSH not judged` });
     npsh = { available, required, marginRatio, requiredMargin, status };
   }

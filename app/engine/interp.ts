@@ -51,8 +51,17 @@ export function fritschCarlsonTangents(x: ArrayLike<number>, y: ArrayLike<number
     const s = a * a + b * b;
     if (s > 9) {
       const t = 3 / Math.sqrt(s);
-      m[k] = t * a * d;
-      m[k + 1] = t * b * d;
+      // α or β past the largest double (a tangent over a step of some 1e-321, values a maker's cell of 1e-323 m apart)
+      // made t 0 and 0 × Infinity a NaN tangent, and every value read in the interval NaN (the search threw): there the
+      // limit of t·α·d, 3·m/√(α² + β²), is 0 — a flat tangent, which keeps the interval monotone.
+      if (Number.isFinite(a) && Number.isFinite(b)) {
+        m[k] = t * a * d;
+        m[k + 1] = t * b * d;
+      } else {
+        const r = Math.hypot(a, b);
+        m[k] = 3 * m[k] / r;
+        m[k + 1] = 3 * m[k + 1] / r;
+      }
     }
   }
 }

@@ -166,8 +166,18 @@ const maxDecimals = (base: number, values: readonly number[]) => {
   const m = Math.max(...values.map(Math.abs));
   return m > 0 ? Math.min(20, Math.max(base, MAX_SIGNIFICANT - 1 - Math.floor(Math.log10(m)))) : base;
 };
-/** Significant digits of a non-zero value too small for its decimals (count). */
+/** Significant digits of a non-zero value too small for its decimals, or too large for its whole digits (count). */
 const TINY_SIGNIFICANT = 3;
+/**
+ * From this magnitude up, in the unit shown, a number reads in exponent form, 3 significant digits ("3.28e+12 ft"), more
+ * where it is compared and would read as its neighbour (fmtExpExact): its whole digits would pass the 9 significant digits
+ * the words ever tell apart (MAX_SIGNIFICANT), printing digits no double or datum holds — 1e12 m read "3280839895013 ft",
+ * 1e21 m "3.2808398950131234e+21 ft" (toFixed's own exponent, 17 digits), 1e12 m³/s "15850323141488904 gpm" (decision
+ * "npshzero", the numbers' ends). The same rule as a number too small for its decimals ("1.00e-15"): one form at both ends.
+ * Not a range's end nor the number refused against it (qtBound, qtSent): those keep their whole digits, grouped
+ * ("±3 280 839 895 013 ft"), as the reader types them back.
+ */
+export const LARGE_FROM = 10 ** MAX_SIGNIFICANT;
 /** "-0.000" reads as zero: drop the sign of a rounded zero. */
 const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
 
@@ -178,12 +188,14 @@ export const fmtInt = (x: number | null | undefined) => (x == null || !Number.is
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
  * A non-zero number those decimals would show as zero gets 3 significant digits instead (4e-7 → "4.00e-7",
- * 0.0004 → "0.000400", not "0.000"); a rounded zero never carries a minus sign ("-0.000" → "0.000").
+ * 0.0004 → "0.000400", not "0.000"), and so does one from {@link LARGE_FROM} up (3.28e12 → "3.28e+12"); a rounded zero
+ * never carries a minus sign ("-0.000" → "0.000").
  * @param x the number, in any unit
  * @param digits decimals wanted instead (count; then a small number may read as zero, but unsigned)
  */
 export function fmtNum(x: number | null | undefined, digits?: number): string {
   if (x == null || !Number.isFinite(x)) return "—";
+  if (digits === undefined && Math.abs(x) >= LARGE_FROM) return x.toPrecision(TINY_SIGNIFICANT);
   const t = x.toFixed(digits ?? decimalsFor(x));
   if (digits === undefined && x !== 0 && Number(t) === 0) return x.toPrecision(TINY_SIGNIFICANT);
   return unsignedZero(t);
@@ -199,16 +211,19 @@ export function fmtNum(x: number | null | undefined, digits?: number): string {
  * @param against the numbers it is compared with, in the same unit
  * @param digits decimals at the least (count; default the magnitude rule)
  * @param limit whether x is the limit (true) or the reading (false, default) (unitless)
+ * @param whole (unitless) whether a number from {@link LARGE_FROM} up keeps its whole digits (true: a range's end or the
+ *   number refused against it, grouped and typed back, limitText.ts) or reads in exponent form (false, default)
  */
-export function fmtNumExact(x: number | null | undefined, against: readonly (number | null | undefined)[] = [], digits?: number, limit = false): string {
+export function fmtNumExact(x: number | null | undefined, against: readonly (number | null | undefined)[] = [], digits?: number, limit = false, whole = false): string {
   if (x == null || !Number.isFinite(x)) return "—";
   const base = digits ?? decimalsFor(x);
   const others = [0, ...against].filter((a): a is number => a != null && Number.isFinite(a) && a !== x);
+  if (digits === undefined && !whole && Math.abs(x) >= LARGE_FROM) return fmtExpExact(x, others, TINY_SIGNIFICANT - 1); // exponent form, apart
   const shown = (v: number, d: number) => Number(v.toFixed(d)); // -0 and 0 read the same
   const most = maxDecimals(base, [x, ...others]);
   let d = base;
   while (d < most && others.some((a) => shown(a, d) === shown(x, d))) d++;
-  if (d === base) return fmtNum(x, digits);
+  if (d === base) return fmtNum(x, digits ?? (whole && Math.abs(x) >= LARGE_FROM ? 0 : undefined));
   if (shown(x, d) === 0) return fmtNum(x); // still reads as zero: significant digits
   const t = x.toFixed(d);
   return unsignedZero(limit ? t.replace(/0+$/, (zeros) => zeros.slice(d - base)).replace(/\.$/, "") : t);
@@ -267,12 +282,13 @@ export function fmtQuantityAboveZero(units: UnitPreset, q: Quantity, si: number 
  * @param si the value in SI (temperature in °C)
  * @param against the values it is compared with, in SI
  * @param limit whether si is the limit (its added decimals without trailing zeros) or the reading (default) (unitless)
+ * @param whole (unitless) whether a number from {@link LARGE_FROM} up keeps its whole digits (a number refused, grouped)
  */
-export function fmtQuantityExact(units: UnitPreset, q: Quantity, si: number | null | undefined, against: readonly (number | null | undefined)[], limit = false): string {
+export function fmtQuantityExact(units: UnitPreset, q: Quantity, si: number | null | undefined, against: readonly (number | null | undefined)[], limit = false, whole = false): string {
   if (si == null || !Number.isFinite(si)) return "—";
   const unit = units[q];
   const shown = (v: number) => (v === si ? NaN : fromSI(q, unit, v)); // an equal value is no other value
-  return `${fmtNumExact(fromSI(q, unit, si), against.filter((a): a is number => a != null && Number.isFinite(a)).map(shown), undefined, limit)} ${unitLabel(q, unit)}`;
+  return `${fmtNumExact(fromSI(q, unit, si), against.filter((a): a is number => a != null && Number.isFinite(a)).map(shown), undefined, limit, whole)} ${unitLabel(q, unit)}`;
 }
 
 const isQuantity = (x: string): x is Quantity => Object.prototype.hasOwnProperty.call(UNITS, x);
@@ -308,8 +324,8 @@ export function renderQuantities(text: string, units: UnitPreset): string {
       }
       if (zero) return fmtQuantityAboveZero(units, q, x, against);
       const v = fromSI(q, units[q], x); // a bound: grouped, rounded inward where it names its side (limitText.ts)
-      if (boundMark) return `${groupThousands(boundInward(fmtNumExact(v, against.map((a) => (a === x ? NaN : fromSI(q, units[q], a))), undefined, true), v, boundMark[1] as "min" | "max" | undefined))} ${unitLabel(q, units[q])}`;
-      if (sent) return groupThousands(fmtQuantityExact(units, q, x, against));
+      if (boundMark) return `${groupThousands(boundInward(fmtNumExact(v, against.map((a) => (a === x ? NaN : fromSI(q, units[q], a))), undefined, true, true), v, boundMark[1] as "min" | "max" | undefined))} ${unitLabel(q, units[q])}`;
+      if (sent) return groupThousands(fmtQuantityExact(units, q, x, against, false, true)); // both whole, grouped: typed back
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {
       if (e instanceof EngineInputError) return whole; // past a double in this unit (a typed ⟦flow|1e308⟧ in m³/h): as written

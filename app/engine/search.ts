@@ -22,6 +22,7 @@ import { POR_FRACTION } from "./pumpCurve.ts";
 import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
 import { evalNpshrPacked, evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
 import { explainRanks } from "./searchExplain.ts";
+import { npshRatioBelow } from "./npshRatio.ts";
 
 export type { CurveSet, SearchIndex } from "./searchIndex.ts";
 
@@ -170,7 +171,10 @@ export function searchDuty(
     // without NPSHr (it threw the whole search); at NPSHa 0 the ratio is 0, and the pump is left out as every other.
     const ratioAtDuty = npsha !== null && npshr !== null && npshr > 0 ? npsha / npshr : null;
     const npshMargin = ratioAtDuty !== null && Number.isFinite(ratioAtDuty) ? ratioAtDuty : null;
-    if (npshMargin !== null && npshMargin < 1) { rejectedByNpsh++; continue; } // cavitation: cannot meet the duty
+    // Cavitation: cannot meet the duty — NPSHa / NPSHr below 1 (to 1 part in 10⁸, figures.ts `npshRatioBelow`), or NPSHa
+    // at zero (the caller's NPSHa ≤ 0) beside any NPSHr at the duty, 0 included: the liquid boils at the inlet whatever the
+    // pump (an NPSHr read as 0, 5e-324 m × a speed ratio² below ½, had no ratio and kept the pump).
+    if (npshr !== null && (npsha === 0 || (npshMargin !== null && npshRatioBelow(npshMargin, 1)))) { rejectedByNpsh++; continue; }
     fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty);
     fEff.push(eff); fBep.push(bepRatio); fNpshr.push(npshr); fMargin.push(npshMargin);
     fPower.push(eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null);
@@ -217,7 +221,7 @@ export function searchScore(efficiency: number | null, bepRatio: number | null, 
   let s = efficiency ?? 0.3;
   if (bepRatio !== null) s -= 0.5 * Math.abs(bepRatio - 1);
   else s -= 0.1;
-  if (npshMargin !== null && npshMargin < reqMargin) s -= 0.1 * (reqMargin - npshMargin) / (reqMargin - 1 || 1) + 0.05;
+  if (npshMargin !== null && npshRatioBelow(npshMargin, reqMargin)) s -= 0.1 * (reqMargin - npshMargin) / (reqMargin - 1 || 1) + 0.05;
   if (shaftPower !== null && Number.isFinite(minPower)) s -= 0.1 * (shaftPower / minPower - 1);
   return s;
 }

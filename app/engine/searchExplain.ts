@@ -5,6 +5,7 @@
 import { EngineInputError, requirePositive, requireNonNegative } from "./errors.ts";
 import type { Candidate } from "./search.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, qt } from "./quantityText.ts";
+import { npshRatioBelow, npshRatioText } from "./npshRatio.ts";
 
 /** What a row is, in words (how it meets the duty and its figures). */
 function describe(c: Candidate, reqMargin: number): string {
@@ -15,7 +16,7 @@ function describe(c: Candidate, reqMargin: number): string {
   parts.push(c.efficiency !== null ? `${fmtPct(c.efficiency)} efficient at duty` : "no efficiency data (ranked down)");
   // Beside "outside POR" or "below" the figure never reads as the limit it was judged against.
   if (c.bepRatio !== null) parts.push(c.inPor ? `${Math.round(c.bepRatio * 100)} % of BEP flow (inside POR)` : `${fmtPctExact(c.bepRatio, [0.7, 1.2], 0)} of BEP flow (outside POR 70–120 %)`);
-  if (c.npshMargin !== null) parts.push(`NPSH margin at duty ${fmtNumExact(c.npshMargin, [1, reqMargin], 2)}${c.npshMargin < reqMargin ? ` (below ${reqMargin})` : ""}`);
+  if (c.npshMargin !== null) parts.push(`NPSH margin at duty ${npshRatioText(c.npshMargin, reqMargin)}${npshRatioBelow(c.npshMargin, reqMargin) ? ` (below ${reqMargin})` : ""}`);
   if (c.shaftPower !== null) parts.push(`${qt("power", c.shaftPower)} shaft`);
   return parts.join("; ");
 }

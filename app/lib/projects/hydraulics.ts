@@ -39,9 +39,10 @@ import { stagedShortfalls, type StagedShortfall } from "./verdict-start";
 import { minFlowCheck, type MinFlowCheck } from "./verdict-min-flow";
 import { bandCautions, bandPoints, GOVERNING_CASE, governingName, motorFigures, npshCornerPoints, npshOverBand, verdictOnBand, type BandPoint, type MotorFigures, type NpshJudgement } from "./candidate-judgement";
 import { fmtNumExact, qt, qtAboveZero, qtPair } from "~/engine/quantityText";
+import { marginRatioText } from "./npsh-ratio";
 import { viscosityCheck, viscositySummary, verdictViscosity, type Liquid } from "./viscosity-check";
 import { adjustedRatio, liquidSolver } from "./candidate-solve";
-import { npshrPublished, samplesWithNpshrEnds } from "./npshr-reach";
+import { npshrGapClauses, npshrPublished, samplesWithNpshrEnds } from "./npshr-reach";
 
 export type RunReport = {
   name: string;
@@ -279,7 +280,11 @@ export function evaluateCandidate(
       suction: { surfacePressure: input.suctionSurfacePressure, staticSuctionHead: input.suctionStaticHead, suctionLoss: sl },
       requiredMargin: input.npshMargin,
     });
-    warnings.push(...wText(f.warnings));
+    // No NPSHr at the operating point: the engine's "curve has no NPSHr at this flow" named neither flow; the candidate's
+    // cautions (table, report, CSV `warning_N`) say where the NPSHr curve stops with one pump's flow, as the verdict's line.
+    const noNpshr = (w: EngineWarning) => w.code === "npsh-unknown" && f.npsh?.required == null;
+    const opPub = npshrPublished(curve.points, adj.arrangement === "single" ? 1 : n);
+    warnings.push(...f.warnings.map((w) => (noNpshr(w) ? `NPSH not judged at the operating point: ${npshrGapClauses(opPub, [{ at: "design point", flow: op.flow!, pumpFlow: perPumpFlow }]).join("; ")}` : w.message)));
     const k = adj.arrangement === "single" ? 1 : n;
     const motor = motorFigures({
       shaftPower: f.shaftPower != null ? f.shaftPower * k : null,
@@ -338,7 +343,7 @@ export function evaluateCandidate(
   if (npsh.at !== "design point" && (npsh.status === "cavitation-risk" || npsh.status === "low-margin"))
     warnings.push(npsh.marginRatio == null
       ? `NPSH at ${npsh.at}: NPSHa ${qtAboveZero("head", npsh.available ?? NaN, [])} is not above zero: cavitation risk whatever the pump's NPSHr`
-      : `NPSH at ${npsh.at}: margin ratio ${fmtNumExact(npsh.marginRatio, [1, input.npshMargin], 2)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
+      : `NPSH at ${npsh.at}: margin ratio ${marginRatioText(npsh.marginRatio, input.npshMargin)}, ${npsh.status === "cavitation-risk" ? "NPSHa below NPSHr: cavitation risk" : `below the wanted ${input.npshMargin}`}`);
   const cat = opts.catalogue;
   const catalogue: CatalogueLimits | undefined = cat
     ? {

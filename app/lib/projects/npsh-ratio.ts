@@ -3,7 +3,7 @@
 // "npshtruth"). The evaluation computes no such ratio now (engine `npshMarginRatio`); a selection frozen before it holds
 // the negative ratios then computed, and every reader of a stored result (systems API, selection CSV and JSON) passes it
 // through here. A ratio just above zero reads "< 0.01" (`marginRatioText`). Pure.
-import { fmtNumExact } from "~/engine/quantityText";
+import { npshRatioText } from "~/engine/npshRatio";
 
 /** Below this an NPSH margin ratio above zero reads "< 0.01" (dimensionless): at the ratios' two decimals it would read 0.00, the NPSHa-at-zero case. */
 export const RATIO_SHOWN_FLOOR = 0.01;
@@ -18,7 +18,7 @@ export const RATIO_SHOWN_FLOOR = 0.01;
  */
 export function marginRatioText(ratio: number | null | undefined, requiredMargin: number | null | undefined): string {
   if (ratio != null && ratio > 0 && ratio < RATIO_SHOWN_FLOOR) return `< ${RATIO_SHOWN_FLOOR}`;
-  return fmtNumExact(ratio, [1, requiredMargin], 2);
+  return npshRatioText(ratio, requiredMargin);
 }
 
 /**

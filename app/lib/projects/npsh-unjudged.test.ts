@@ -30,7 +30,10 @@ describe("npshOverBand: a point not judged leaves the status unknown unless a ju
   });
   it("flips at the threshold: a judged corner just below 1 is a cavitation risk whatever is unjudged; at 1 it is unknown", () => {
     const gap = pt("least lift, aged pipe", null, null);
-    expect(npshOverBand(design, [pt("least lift, new pipe", 0.012, 1 - 1e-9), gap], 1.1).status).toBe("cavitation-risk");
+    // Below 1 by more than the one allowance at a judged limit, 1 part in 10⁸ (engine npshRatio.ts, decision "npshzero"):
+    // within it the ratio is at 1 (1 − 1e-9 was a cavitation risk before the allowance).
+    expect(npshOverBand(design, [pt("least lift, new pipe", 0.012, 1 - 1.01e-8), gap], 1.1).status).toBe("cavitation-risk");
+    expect(npshOverBand(design, [pt("least lift, new pipe", 0.012, 1 - 0.99e-8), gap], 1.1).status).toBe("unknown");
     expect(npshOverBand(design, [pt("least lift, new pipe", 0.012, 1), gap], 1.1).status).toBe("unknown");
   });
   it("the rule says so", () => expect(npshOverBand(design, judged, 1.1).rule).toContain("a point with no operating point or no NPSHr leaves it unknown"));

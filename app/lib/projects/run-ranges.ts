@@ -68,7 +68,7 @@ export function rangeText(r: NumberRange, value?: number | null): string {
 function notText(r: NumberRange, value: number): string {
   if (!(Math.abs(value) <= MAX_MAGNITUDE)) return "";
   const end = value < r.min ? r.min : r.max;
-  return `, not ${r.q ? qtSent(r.q, value, [end]) : groupThousands(fmtNumExact(value, [end]).replace("-", "−"))}`;
+  return `, not ${r.q ? qtSent(r.q, value, [end]) : groupThousands(fmtNumExact(value, [end], undefined, false, true).replace("-", "−"))}`;
 }
 
 /**

@@ -14,7 +14,7 @@ import { explainRanks, joinSearchIndexes, prepareSearchIndex, searchDuty, verdic
 import { evaluateSystem, type SystemInput } from "./hydraulics";
 import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
-import { fmtNumExact } from "~/engine/quantityText";
+import { marginRatioText } from "./npsh-ratio";
 import { judgeSearchRow, type Judged, type JudgedSetting } from "./search-judge";
 import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, shareName, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
@@ -372,5 +372,5 @@ function classText(k: Ranked, subject: "row" | "above"): string {
 }
 /** Where the band's NPSH judgement is decided: "NPSHa / NPSHr 0.94 at least lift, aged pipe" (ratio dimensionless, never read as 1). */
 function npshWhere(n: NpshJudgement): string {
-  return n.marginRatio != null ? `NPSHa / NPSHr ${fmtNumExact(n.marginRatio, [1], 2)} at ${n.at}` : `NPSHa not above zero at ${n.at}`;
+  return n.marginRatio != null ? `NPSHa / NPSHr ${marginRatioText(n.marginRatio, n.requiredMargin)} at ${n.at}` : `NPSHa not above zero at ${n.at}`;
 }

@@ -7,6 +7,7 @@ import { markNeverRun } from "~/engine/cycleTotals";
 import {
   COUNTED_STEP_STATUSES,
   npshAvailable,
+  npshMarginRatio,
   npshrAt,
   npshStatus,
   suctionLoss,
@@ -15,7 +16,8 @@ import {
   type PreparedSystem,
   type PumpCurve,
 } from "~/engine";
-import { fmtNumExact, fmtPct, qt, qtAboveZero, qtExact } from "~/engine/quantityText";
+import { fmtPct, qt, qtAboveZero, qtExact } from "~/engine/quantityText";
+import { npshRatioText } from "~/engine/npshRatio";
 import { npshrGapClauses, npshrPublished, type NpshrPublished } from "./npshr-reach";
 
 /** The rule in words, with the wanted ratio (dimensionless), as each warning states it. */
@@ -82,19 +84,21 @@ export function stagedNpshWarnings(input: StagedNpshInput): StagedNpshWarning[] 
       out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: "cavitation-risk", message: `${where}; ${npsha}, at or below zero: cavitation risk whatever the pump (${stagedNpshRule(wanted)})` });
       return;
     }
-    if (nr == null || !(nr > 0)) {
+    // The engine's ratio (figures.ts `npshMarginRatio`): none where NPSHr × speed² reads 0 or so small that NPSHa / NPSHr
+    // is no finite number (a cell of 5e-324 m: Infinity threw the whole cycle at `npshStatus`), as the operating point's.
+    const ratio = nr == null ? null : npshMarginRatio(na, nr);
+    if (nr == null || ratio == null) {
       // Where the NPSHr curve stops and one pump's share beside it, the verdict's line's words (npshr-reach.ts).
       const why = nr == null
         ? `${npshrGapClauses(publishedAtStep(published, speed, k), [{ at: "", flow: s.flow, pumpFlow: share }], false).join("; ")}${speed !== 1 ? ` (its flows at ${fmtPct(speed)} speed, Q ∝ N, affinity laws)` : ""}`
-        : "the curve has no NPSHr at one pump's share";
+        : `one pump's NPSHr at its share, ${qt("head", nr)}, is too small to judge NPSHa against (NPSHa / NPSHr is no finite number)`;
       out.push({ code: "staged-npsh-not-judged", parameter: `profile[${i}]`, message: `${where}; not judged: ${why} (${npsha}; ${stagedNpshRule(wanted)})` });
       return;
     }
-    const ratio = na / nr;
     const status = npshStatus(ratio, wanted);
     if (status === "ok") return;
     const verdict = status === "cavitation-risk" ? "below 1, NPSHa below NPSHr: cavitation risk" : `below the wanted ${wanted}: low NPSH margin`;
-    out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: status === "cavitation-risk" ? "cavitation-risk" : "low-margin", message: `${where}; ${npsha} / ${npshr} = ${fmtNumExact(ratio, [1, wanted], 2)}, ${verdict} (${stagedNpshRule(wanted)})` });
+    out.push({ code: "staged-npsh", parameter: `profile[${i}]`, npshStatus: status === "cavitation-risk" ? "cavitation-risk" : "low-margin", message: `${where}; ${npsha} / ${npshr} = ${npshRatioText(ratio, wanted)}, ${verdict} (${stagedNpshRule(wanted)})` });
   });
   markNeverRun(input.cycle.steps, out);
   return out;

@@ -59,7 +59,8 @@ function readNumber(f: FormLike, key: string, errors: FormErrors, opts: { option
   if (!(Math.abs(si) <= MAX_MAGNITUDE)) {
     // Grouped by spaces and rounded down (checked exactly), so the bound typed back is taken: "3 280 839 895 013 ft".
     const end = u ? Math.abs(fromSI(u.q, unitOf(u.sys, u.q), MAX_MAGNITUDE)) : MAX_MAGNITUDE;
-    const bound = `${groupThousands(boundInward(fmtNum(end), end, "max", 0))}${u ? ` ${labelOf(u.sys, u.q)}` : ""}`;
+    // Whole digits even from 1e9 up (engine quantityText.ts `LARGE_FROM` is for readings, not a bound typed back).
+    const bound = `${groupThousands(boundInward(fmtNum(end, end >= 100 ? 0 : undefined), end, "max", 0))}${u ? ` ${labelOf(u.sys, u.q)}` : ""}`;
     errors[key] ??= `${opts.label[0].toUpperCase()}${opts.label.slice(1)} is far outside any pump system: the form takes nothing beyond ±${bound}; check the value${u ? " and its unit" : ""}.`;
     return null;
   }

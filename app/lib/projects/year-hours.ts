@@ -7,7 +7,7 @@ import { fmtNumExact, groupThousands } from "~/engine/quantityText";
 export const HOURS_IN_YEAR = 8784;
 
 /** Hours as a refusal writes them: grouped by spaces, told apart from the end they are past ("8 784.01 h"). */
-const hoursText = (x: number, end: number) => `${groupThousands(fmtNumExact(x, [end]).replace("-", "−"))} h`;
+const hoursText = (x: number, end: number) => `${groupThousands(fmtNumExact(x, [end], undefined, false, true).replace("-", "−"))} h`;
 
 /**
  * The refusal of hours outside 0 to 8784 a year (null or not finite: not a number): "Operating hours must be from 0 to
