@@ -10,7 +10,7 @@ describe("parseCheckFields: numbers as typed", () => {
   it("refuses 1,500 rpm as ambiguous on its field and says how to write it; 1500 and 1,5 are read", () => {
     const r = parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1,500" }), { kind: "water" });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.errors.rpm).toBe("The speed “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
+    if (!r.ok) expect(r.errors.rpm).toBe("The speed “1,500” is ambiguous: 1500 (a thousands comma) or 1.500 (a decimal comma)? Write 1500 or 1 500 for the first, 1.500 or 1.5 for the second.");
     expect(parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1500" }), { kind: "water" }).ok).toBe(true);
     const comma = parseCheckFields(fieldsForHead(20, RHO20, { sElevation: "0,5" }), { kind: "water" });
     expect(comma.ok && comma.readings.suction.elevation).toBe(0.5);
