@@ -39,7 +39,7 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
     const high = at(water, WATER_RANGE_C.max + 0.1);
     const low = at(water, WATER_RANGE_C.min - 0.1);
     expect(high.ok || high.errors.temperature).toBe(
-      "Fluid temperature is too high: the form takes 0 to 100 °C — water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system).",
+      "Fluid temperature is too high: the form takes 0 to 100 °C, not 100.1 °C — water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system).",
     );
     expect(low.ok || low.errors.temperature).toMatch(/^Fluid temperature is too low: the form takes 0 to 100 °C/);
     // In °F: 212 °F is 100 °C (taken), 212.5 °F is past it.
@@ -51,7 +51,7 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
   it("a user-defined liquid takes 150 °C (past water's range) and refuses 201 °C", () => {
     expect(at(custom, 150).ok).toBe(true);
     const r = at(custom, 201);
-    expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C — the form's plausibility bounds for a user-defined liquid/);
+    expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C, not 201 °C — the form's plausibility bounds for a user-defined liquid/);
   });
 
   it("each end the hint shows in °F is taken as typed: 392 °F (200 °C, 200.00000000000003 once converted) and −4 °F", () => {
