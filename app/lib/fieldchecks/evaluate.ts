@@ -31,7 +31,7 @@ import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } fro
 import type { CheckResult, Pt } from "./result";
 import { crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
-import { uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
+import { powerAccuracyTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -246,7 +246,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // Marginal within the readings' uncertainty only while it is no wider than the grade's own tolerance (uncertainty-bound.ts):
   // wider, the box straddles the grade whatever the pump does, so no tolerance verdict, with both numbers.
   const curveHeadHere = engine.curveHead ?? (within ? headAt(curve, Math.min(Math.max(within.flow, curve.flowMin), curve.flowMax)) : null);
-  const tooWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
+  const boxWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
+  // The same where the marginal rests on the power reading's accuracy: wider than the grade's power tolerance, no verdict.
+  const powerWide = powerWithin && verdict === "marginal" ? powerAccuracyTooWide(grade, powerAccuracy) : null;
+  const tooWide = boxWide || powerWide ? { gradeId: grade.id, head: boxWide?.head ?? null, flow: boxWide?.flow ?? null, power: powerWide } : null;
   if (tooWide) {
     verdict = "unknown";
     warnings.push(uncertaintyNoVerdict(tooWide, grade, rho));
