@@ -14,7 +14,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { fmtPctExact, fmtPctSignedExact } from "~/engine/quantityText";
 import { flowBandHalfWidthText } from "~/engine";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, fmtQZero, type UnitChoice } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -55,11 +55,15 @@ type RecordData = Awaited<ReturnType<typeof loader>>;
 /** A deviation from the design duty (no verdict rests on it), signed with the true minus. */
 const signed = (x: number | null | undefined) => fmtPctSignedExact(x, [], true);
 
+/** A pressure with the true minus sign (U+2212), as the app's signed texts: "−20.0 kPa" (a vacuum reading), never "-20.0 kPa". */
+const pressureText = (sys: UnitChoice, si: number) => fmtPressure(sys, si).replace(/^-/, "\u2212");
+
 function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
-  const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
-  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against ${fmtPressure(sys, 101325)})` : "";
-  return `${read}${used}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
+  const read = `${pressureText(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
+  const used = g.reference === "absolute" ? ` (${pressureText(sys, asGauge)} gauge against ${pressureText(sys, 101325)})` : "";
+  // An accuracy not given is said so (it showed nothing, as an entered 0 did); an entered 0 is "±0 kPa".
+  return `${read}${used}${g.accuracy === null ? " (accuracy not given)" : ` ±${fmtQZero(sys, "pressure", g.accuracy)}`} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
 }
 
 export default function FieldCheckRecord() {
@@ -195,7 +199,7 @@ export default function FieldCheckRecord() {
             suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}
           </dd>
           <dt className="text-slate-600">Flow meter</dt>
-          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}` : ""}` : "none"}</dd>
+          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy === null ? " (the meter's accuracy not given)" : rd.flowAccuracy === 0 ? " ±0 %" : ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}`}` : "none"}</dd>
           <dt className="text-slate-600">Speed</dt>
           <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${rpmApart} rpm` : rpm !== null ? `${rpmApart} rpm` : "not entered"}</dd>
           <dt className="text-slate-600">Power</dt>

@@ -104,7 +104,12 @@ test("nothing stored carries a missing number (a NaN is written as null in JSON)
   const rows = await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId));
   expect(rows.length).toBeGreaterThan(0);
   for (const row of rows) {
-    expect(row.readingsJson, `check ${row.id}`).not.toMatch(/null|NaN|Infinity/);
+    // An accuracy left blank is stored as null, not given (decision "fieldmeter"; it was 0, a perfect instrument) — and only then.
+    const stored = JSON.parse(row.readingsJson) as { readings: Record<string, unknown> & { suction: { accuracy: unknown }; discharge: { accuracy: unknown } }; fields: Record<string, string> };
+    const blanks: [unknown, string][] = [[stored.readings.suction.accuracy, "sAccuracy"], [stored.readings.discharge.accuracy, "dAccuracy"], [stored.readings.flowAccuracy, "flowAccuracy"]];
+    for (const [x, key] of blanks) expect(x === null, `check ${row.id} ${key}`).toBe(stored.fields[key] === "");
+    stored.readings.suction.accuracy = stored.readings.discharge.accuracy = stored.readings.flowAccuracy = 0;
+    expect(JSON.stringify(stored.readings), `check ${row.id}`).not.toMatch(/null|NaN|Infinity/);
     const r = JSON.parse(row.resultJson);
     expect(Number.isFinite(r.delivered.head), `check ${row.id}`).toBe(true);
     expect(r.delivered.head, `check ${row.id}`).toBeGreaterThan(0);

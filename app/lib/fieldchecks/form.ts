@@ -42,8 +42,11 @@ export type GaugeSI = {
   elevation: number;
   /** Pipe inner diameter at the tap, m. */
   diameter: number;
-  /** Gauge accuracy, ± Pa (0 when not stated). */
-  accuracy: number;
+  /**
+   * Gauge accuracy, ± Pa; null when not given (a blank field: unknown, never a perfect gauge). Readings recorded before a
+   * blank was kept stored 0 for it: `readStoredCheck` reads such a 0 back as null where its field was blank.
+   */
+  accuracy: number | null;
 };
 
 export type SpeedSI =
@@ -76,8 +79,8 @@ export type Readings = {
   discharge: GaugeSI;
   /** Flow meter reading, m³/s, or null without a meter. */
   flow: number | null;
-  /** Flow meter accuracy as a fraction of reading (0 when not stated). */
-  flowAccuracy: number;
+  /** Flow meter accuracy as a fraction of the reading; null when not given (as the gauges' accuracy). */
+  flowAccuracy: number | null;
   speed: SpeedSI;
   power: PowerSI;
   /** Fluid temperature, °C. */
@@ -258,7 +261,8 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
       max: 1e8,
       why: reference === "absolute" ? "an absolute reading is never below zero; up to 1\u202f000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1\u202f000 bar",
     });
-    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" }) ?? 0;
+    // Blank is "not given" (null), kept apart from an entered 0 everywhere after (decision "fieldmeter").
+    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" });
     const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });
     const diameter = num(`${p}Diameter`, `the ${side} pipe inner diameter`, "diameter", dUnit, { min: 0.005, max: 3 });
     if (pressure === null || elevation === null || diameter === null) return null;
@@ -313,7 +317,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   if (Object.keys(errors).length || !suction || !discharge || temperatureC === null) return { ok: false, errors, fields: f };
   return {
     ok: true,
-    readings: { suction, discharge, flow, flowAccuracy: (flowAccPct ?? 0) / 100, speed, power, temperatureC },
+    readings: { suction, discharge, flow, flowAccuracy: flowAccPct === null ? null : flowAccPct / 100, speed, power, temperatureC },
     notes,
     fields: f,
   };

@@ -46,13 +46,14 @@ export function headTolerance(grade: Pick<ToleranceGrade, "head">, curveHead: nu
  * @param grade tolerance grade (fractions)
  * @param curveHead the curve's head at the measured flow, m
  * @param headUncertainty the head's uncertainty, ± m (the gauges' in quadrature over ρ·g)
- * @param flowAccuracy the flow meter's accuracy, ± fraction of the reading (0: not given)
+ * @param flowAccuracy the flow meter's accuracy, ± fraction of the reading; null when not given (unknown: not compared, as it
+ *   widened nothing — the flow taken as read, and said so)
  */
-export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "flow">, curveHead: number, headUncertainty: number, flowAccuracy: number): UncertaintyTooWide | null {
+export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "flow">, curveHead: number, headUncertainty: number, flowAccuracy: number | null): UncertaintyTooWide | null {
   const hTol = headTolerance(grade, curveHead);
   const qTol = half(grade.flow);
   const head = headUncertainty > hTol ? { uncertainty: headUncertainty, tolerance: hTol, curveHead } : null;
-  const flow = flowAccuracy > qTol ? { accuracy: flowAccuracy, tolerance: qTol } : null;
+  const flow = flowAccuracy !== null && flowAccuracy > qTol ? { accuracy: flowAccuracy, tolerance: qTol } : null;
   return head || flow ? { gradeId: grade.id, head, flow } : null;
 }
 
