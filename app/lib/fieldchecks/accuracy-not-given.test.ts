@@ -69,4 +69,8 @@ test("the CSV: each accuracy as entered (± Pa, ± fraction), blank where not gi
   };
   expect(cell(given)).toEqual(["2500", "0", "0.02"]);
   expect(cell(blank)).toEqual(["", "", ""]); // was: no such columns
+  // A vacuum reading stays an ASCII number in its column (machine-readable); the words elsewhere carry U+2212.
+  const vac = parsed({ sPressure: "-20" }, 28);
+  const { header, row } = oneCheckCsv(vac.readings, evaluateCheck(f, vac.readings, "2B"));
+  expect(row[header.indexOf("suction_pa_as_read")]).toBe("-20000");
 });
