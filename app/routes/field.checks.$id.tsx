@@ -74,6 +74,8 @@ export default function FieldCheckRecord() {
   const rd = d.readings;
   const e = r.engine;
   const band = e.flowBand;
+  /** The gauges whose accuracy was not given (null): the band says so rather than a width of ±0. */
+  const noGauge = ([["suction", rd.suction.accuracy], ["discharge", rd.discharge.accuracy]] as const).filter(([, a]) => a === null).map(([side]) => side);
   const cross = crossOf(r);
   const note = verdictNote(r);
   const rpm = speedRpm(rd.speed);
@@ -123,8 +125,16 @@ export default function FieldCheckRecord() {
             <>
               <dt className="text-slate-600">Flow band from gauge accuracy</dt>
               <dd>
-                {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)})
-                {band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width {flowBandHalfWidthText(band.low, band.high, e.flow)} of the flow: the flatter the curve, the wider the band.</span> : null}
+                {noGauge.length === 2 ? (
+                  // Neither gauge's accuracy given: no band to draw (it read "43.2 to 43.2 m³/h (head ±0.00 m), width ±0 %").
+                  "none: the gauges' accuracy was not given, so the flow is the curve's at the head as read"
+                ) : (
+                  <>
+                    {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)}
+                    {noGauge.length ? `, the ${noGauge[0]} gauge's accuracy not given` : ""})
+                  </>
+                )}
+                {noGauge.length < 2 && band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width {flowBandHalfWidthText(band.low, band.high, e.flow)} of the flow: the flatter the curve, the wider the band.</span> : null}
               </dd>
             </>
           ) : null}

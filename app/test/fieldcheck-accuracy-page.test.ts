@@ -9,7 +9,7 @@ import { parseCheckFields } from "~/lib/fieldchecks";
 import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import * as checkPage from "~/routes/field.checks.$id";
 import { makeMember, type TestMember } from "./harness";
-import { loadedPage } from "./render-page";
+import { loadedPage, plainHtml } from "./render-page";
 import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
@@ -17,6 +17,8 @@ afterAll(() => closeDb());
 const RHO20 = fluidAt({ kind: "water" }, 20).density;
 let m: TestMember;
 let id = 0;
+let noMeter = 0; // no flow meter, both gauges' accuracy blank
+let oneGauge = 0; // no flow meter, the suction gauge's ±5 kPa, the discharge gauge's blank
 
 beforeAll(async () => {
   m = await makeMember("admin");
@@ -26,6 +28,13 @@ beforeAll(async () => {
   const p = parseCheckFields(fieldsForHead(26, RHO20, { flow: "0.012", sPressure: "-20", dAccuracy: "0", flowUnit: "m3/s" }), { kind: "water" });
   if (!p.ok) throw new Error(JSON.stringify(p.errors));
   id = (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  const record = async (extra: Record<string, string>) => {
+    const q = parseCheckFields(fieldsForHead(26, RHO20, extra), { kind: "water" });
+    if (!q.ok) throw new Error(JSON.stringify(q.errors));
+    return (await recordFieldCheck(v, selectionId, { readings: q.readings, fields: q.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  };
+  noMeter = await record({});
+  oneGauge = await record({ sAccuracy: "5" });
 });
 
 test("the readings' rows: 'accuracy not given' for a blank, '±0 kPa' for a typed 0, '−20.0 kPa' with U+2212", async () => {
@@ -35,4 +44,13 @@ test("the readings' rows: 'accuracy not given' for a blank, '±0 kPa' for a type
   expect(html).toMatch(/kPa gauge ±0 kPa · at /);
   expect(html).toContain("43.2 m³/h (the meter's accuracy not given)");
   expect(html).not.toMatch(/>-20\.0 kPa/);
+});
+
+test("no flow meter: the band from gauge accuracy says which accuracy was not given, never a band of ±0", async () => {
+  const none = plainHtml((await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${noMeter}`, { id: String(noMeter) })).html);
+  // Was: "… to … (head ±0.000 m) width ±0 % of the flow", as if the gauges were perfect.
+  expect(none).toContain("Flow band from gauge accuracy</dt><dd>none: the gauges' accuracy was not given, so the flow is the curve's at the head as read");
+  expect(none).not.toMatch(/width ±0 %/);
+  const one = plainHtml((await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${oneGauge}`, { id: String(oneGauge) })).html);
+  expect(one).toMatch(/\(head ±0\.5\d* m, the discharge gauge's accuracy not given\)/); // 5 kPa / (998.2 × 9.80665) = 0.511 m
 });
