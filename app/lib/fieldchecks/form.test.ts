@@ -19,7 +19,7 @@ describe("parseCheckFields: numbers as typed", () => {
     const r = parseCheckFields(fieldsForHead(20, RHO20, { sDiameter: "0x64", dDiameter: "1e309" }), { kind: "water" });
     expect(r.ok).toBe(false);
     if (!r.ok) {
-      expect(r.errors.sDiameter).toBe("The suction pipe inner diameter must be a number; the form takes from 5 mm to 3\u202f000 mm."); // the range in the unit typed (helper "fieldedge2")
+      expect(r.errors.sDiameter).toBe("The suction pipe inner diameter must be a number, not “0x64”; the form takes from 5 mm to 3\u202f000 mm."); // the range in the unit typed (helper "fieldedge2")
       expect(r.errors.dDiameter).toMatch(/must be a number: “1e309” is out of range/);
     }
   });

@@ -223,7 +223,10 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
     if (x === null) {
       // Not a number (NaN, Infinity, 1e400…): the message says so, then the range the field takes.
-      if (range && errors[key] && !errors[key].startsWith("Enter ") && !errors[key].includes("ambiguous")) errors[key] = `${errors[key].replace(/\.$/, "")}; the form takes ${range}.`;
+      // Text that is not a number is named too ("…must be a number, not “0x64”; …"), as a number out of range is.
+      const raw = f[key] ?? "";
+      const named = errors[key]?.endsWith(" must be a number.") ? `${errors[key].slice(0, -1)}, not “${raw.length > 40 ? `${raw.slice(0, 39)}…` : raw}”.` : errors[key];
+      if (range && named && !named.startsWith("Enter ") && !named.includes("ambiguous")) errors[key] = `${named.replace(/\.$/, "")}; the form takes ${range}.`;
       return null;
     }
     // The number refused, in the unit typed, as the system editor's refusals name it (projects/run-ranges.ts `outOfRange`):

@@ -80,3 +80,9 @@ describe("a number out of range is named in the refusal, in the unit typed", () 
     expect(errorOf("temperature", { temperature: "-4", temperatureUnit: "F" })).toMatch(/^Fluid temperature is too low: the form takes 32 to 212 °F, not −4 °F — /);
   });
 });
+
+it("text that is not a number is named beside the range (it was '… must be a number; the form takes …')", () => {
+  expect(errorOf("sDiameter", { sDiameter: "0x64" })).toBe("The suction pipe inner diameter must be a number, not “0x64”; the form takes from 5 mm to 3\u202f000 mm.");
+  expect(errorOf("flow", { flow: "NaN" })).toMatch(/^The flow reading must be a number, not “NaN”; the form takes from 0 m³\/s to 100 m³\/s/);
+  expect(errorOf("rpm", { rpm: "1e400" })).toMatch(/^The speed must be a number: “1e400” is out of range; the form takes from 100 rpm/); // named already
+});
