@@ -14,7 +14,7 @@ import { routeErrorBoundary } from "~/components/RouteError";
 import { fmtPctExact, fmtPctSignedExact } from "~/engine/quantityText";
 import { flowBandHalfWidthText } from "~/engine";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, type UnitChoice } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, fmtQZero, type UnitChoice } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -55,11 +55,15 @@ type RecordData = Awaited<ReturnType<typeof loader>>;
 /** A deviation from the design duty (no verdict rests on it), signed with the true minus. */
 const signed = (x: number | null | undefined) => fmtPctSignedExact(x, [], true);
 
+/** A pressure with the true minus sign (U+2212), as the app's signed texts: "−20.0 kPa" (a vacuum reading), never "-20.0 kPa". */
+const pressureText = (sys: UnitChoice, si: number) => fmtPressure(sys, si).replace(/^-/, "\u2212");
+
 function gaugeText(sys: UnitChoice, g: Readings["suction"], asGauge: number) {
   // Each reading says its reference; an absolute one also shows the gauge value the check used.
-  const read = `${fmtPressure(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
-  const used = g.reference === "absolute" ? ` (${fmtPressure(sys, asGauge)} gauge against ${fmtPressure(sys, 101325)})` : "";
-  return `${read}${used}${g.accuracy ? ` ±${fmtPressure(sys, g.accuracy)}` : ""} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
+  const read = `${pressureText(sys, g.pressure)} ${g.reference === "absolute" ? "absolute" : "gauge"}`;
+  const used = g.reference === "absolute" ? ` (${pressureText(sys, asGauge)} gauge against ${pressureText(sys, 101325)})` : "";
+  // An accuracy not given is said so (it showed nothing, as an entered 0 did); an entered 0 is "±0 kPa".
+  return `${read}${used}${g.accuracy === null ? " (accuracy not given)" : ` ±${fmtQZero(sys, "pressure", g.accuracy)}`} · at ${fmtQ(sys, "length", g.elevation)} · pipe ${fmtQ(sys, "diameter", g.diameter)}`;
 }
 
 export default function FieldCheckRecord() {
@@ -70,6 +74,8 @@ export default function FieldCheckRecord() {
   const rd = d.readings;
   const e = r.engine;
   const band = e.flowBand;
+  /** The gauges whose accuracy was not given (null): the band says so rather than a width of ±0. */
+  const noGauge = ([["suction", rd.suction.accuracy], ["discharge", rd.discharge.accuracy]] as const).filter(([, a]) => a === null).map(([side]) => side);
   const cross = crossOf(r);
   const note = verdictNote(r);
   const rpm = speedRpm(rd.speed);
@@ -119,8 +125,16 @@ export default function FieldCheckRecord() {
             <>
               <dt className="text-slate-600">Flow band from gauge accuracy</dt>
               <dd>
-                {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)})
-                {band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width {flowBandHalfWidthText(band.low, band.high, e.flow)} of the flow: the flatter the curve, the wider the band.</span> : null}
+                {noGauge.length === 2 ? (
+                  // Neither gauge's accuracy given: no band to draw (it read "43.2 to 43.2 m³/h (head ±0.00 m), width ±0 %").
+                  "none: the gauges' accuracy was not given, so the flow is the curve's at the head as read"
+                ) : (
+                  <>
+                    {band.low !== null ? fmtFlow(sys, band.low) : "beyond the curve"} to {band.high !== null ? fmtFlow(sys, band.high) : "beyond the curve"} (head ±{fmtHead(sys, band.headUncertainty)}
+                    {noGauge.length ? `, the ${noGauge[0]} gauge's accuracy not given` : ""})
+                  </>
+                )}
+                {noGauge.length < 2 && band.low !== null && band.high !== null && e.flow ? <span className="block text-xs text-slate-600">width {flowBandHalfWidthText(band.low, band.high, e.flow)} of the flow: the flatter the curve, the wider the band.</span> : null}
               </dd>
             </>
           ) : null}
@@ -195,7 +209,7 @@ export default function FieldCheckRecord() {
             suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}
           </dd>
           <dt className="text-slate-600">Flow meter</dt>
-          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy ? ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}` : ""}` : "none"}</dd>
+          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy === null ? " (the meter's accuracy not given)" : rd.flowAccuracy === 0 ? " ±0 %" : ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}`}` : "none"}</dd>
           <dt className="text-slate-600">Speed</dt>
           <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${rpmApart} rpm` : rpm !== null ? `${rpmApart} rpm` : "not entered"}</dd>
           <dt className="text-slate-600">Power</dt>

@@ -62,7 +62,7 @@ describe("a negative gauge reading: vacuum on suction down to −1 atm gauge", (
     const below = await post({ sPressure: "-101.326" });
     expect(below.status).toBe(400);
     // Was: "Suction pressure is too low: check the value and its unit."
-    expect(below.errors.sPressure).toBe("Suction pressure is too low: the form takes from −101.325 kPa to 100\u202f000 kPa (a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1\u202f000 bar); check the value and its unit.");
+    expect(below.errors.sPressure).toBe("Suction pressure is too low: the form takes from −101.325 kPa to 100\u202f000 kPa (a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1\u202f000 bar), not −101.326 kPa; check the value and its unit.");
     const psi = await post({ pressureUnit: "psi", sPressure: "-14.7", dPressure: "29" });
     expect(psi.errors.sPressure).toMatch(/^Suction pressure is too low: the form takes from −14\.6959 psi/);
   });
@@ -87,7 +87,7 @@ describe("suction above discharge", () => {
 describe("speed and temperature at their ends", () => {
   test("a zero speed is refused with the range; blank is no speed", async () => {
     const zero = await post({ rpm: "0" });
-    expect(zero.errors.rpm).toBe("Speed is too low: the form takes from 100 rpm to 10\u202f000 rpm (a running pump; leave it blank when the speed was not measured); check the value and its unit."); // was: "Speed is too low: check the value and its unit."
+    expect(zero.errors.rpm).toBe("Speed is too low: the form takes from 100 rpm to 10\u202f000 rpm (a running pump; leave it blank when the speed was not measured), not 0 rpm; check the value and its unit."); // was: "Speed is too low: check the value and its unit."
     expect((await post({ rpm: "100" })).recorded).toBe(true);
     expect((await post({ rpm: "" })).recorded).toBe(true);
   });
@@ -104,7 +104,12 @@ test("nothing stored carries a missing number (a NaN is written as null in JSON)
   const rows = await db().select().from(fieldChecks).where(eq(fieldChecks.selectionId, selectionId));
   expect(rows.length).toBeGreaterThan(0);
   for (const row of rows) {
-    expect(row.readingsJson, `check ${row.id}`).not.toMatch(/null|NaN|Infinity/);
+    // An accuracy left blank is stored as null, not given (decision "fieldmeter"; it was 0, a perfect instrument) — and only then.
+    const stored = JSON.parse(row.readingsJson) as { readings: Record<string, unknown> & { suction: { accuracy: unknown }; discharge: { accuracy: unknown } }; fields: Record<string, string> };
+    const blanks: [unknown, string][] = [[stored.readings.suction.accuracy, "sAccuracy"], [stored.readings.discharge.accuracy, "dAccuracy"], [stored.readings.flowAccuracy, "flowAccuracy"]];
+    for (const [x, key] of blanks) expect(x === null, `check ${row.id} ${key}`).toBe(stored.fields[key] === "");
+    stored.readings.suction.accuracy = stored.readings.discharge.accuracy = stored.readings.flowAccuracy = 0;
+    expect(JSON.stringify(stored.readings), `check ${row.id}`).not.toMatch(/null|NaN|Infinity/);
     const r = JSON.parse(row.resultJson);
     expect(Number.isFinite(r.delivered.head), `check ${row.id}`).toBe(true);
     expect(r.delivered.head, `check ${row.id}`).toBeGreaterThan(0);

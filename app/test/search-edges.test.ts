@@ -58,7 +58,7 @@ describe("filter values the search cannot use: set aside, and the page says whic
     ["Infinity", "Max shaft power must be a number above 0 kW: “Infinity” is not a number, so no power limit is applied."],
     ["1e400", "Max shaft power must be a number: “1e400” is out of range, so no power limit is applied."],
     ["1e308", "Max shaft power must be at most 1e12 kW: “1e308” is past it, so no power limit is applied."],
-    ["1,500", "Max shaft power “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5, so no power limit is applied."],
+    ["1,500", "Max shaft power “1,500” is ambiguous: 1500 (a thousands comma) or 1.500 (a decimal comma)? Write 1500 or 1 500 for the first, 1.500 or 1.5 for the second, so no power limit is applied."],
   ])("maxPower=%s", async (value, note) => {
     const d = await page(`?maxPower=${encodeURIComponent(value)}`);
     expect(d.filterNotes).toEqual([note]);

@@ -66,7 +66,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
       "head_allowed_below", "head_allowed_above", "flow_allowed_below", "flow_allowed_above",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
-      "suction_pa_gauge", "discharge_pa_gauge", "temperature_c",
+      "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "suction_accuracy_pa", "discharge_accuracy_pa", "flow_accuracy",
       "power_limits", "shaft_power_w", "power_dev_from_curve", "power_allowed_above", "pump_efficiency", "efficiency_dev_from_curve", "efficiency_allowed_below",
       "power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes",
     ],
@@ -80,7 +80,9 @@ export function historyCsv(h: CheckHistoryForCsv): string {
         r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,
         c.readings.suction.pressure, c.readings.suction.reference, c.readings.discharge.pressure, c.readings.discharge.reference,
-        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC, ...powerColumns(r), ...accuracyColumns(c.readings, r), ...limitColumns(r), c.notes,
+        r.gauges.suction, r.gauges.discharge, c.readings.temperatureC,
+        // The instruments' accuracies as entered (± Pa, ± fraction of the reading); blank where not given — never 0, a perfect one.
+        c.readings.suction.accuracy, c.readings.discharge.accuracy, c.readings.flowAccuracy, ...powerColumns(r), ...accuracyColumns(c.readings, r), ...limitColumns(r), c.notes,
     ]);
   }
   return toCsv(lines, { precision: 8 });

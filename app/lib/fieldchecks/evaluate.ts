@@ -31,7 +31,7 @@ import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } fro
 import type { CheckResult, Pt } from "./result";
 import { crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
-import { uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
+import { powerAccuracyTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -190,8 +190,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const runEngine = (measuredPower: number | undefined) => fieldCheck({
     curve,
     fluid,
-    suction: { pressure: ps, elevation: readings.suction.elevation, pipeDiameter: readings.suction.diameter, accuracy: readings.suction.accuracy },
-    discharge: { pressure: pd, elevation: readings.discharge.elevation, pipeDiameter: readings.discharge.diameter, accuracy: readings.discharge.accuracy },
+    suction: { pressure: ps, elevation: readings.suction.elevation, pipeDiameter: readings.suction.diameter, accuracy: readings.suction.accuracy ?? undefined },
+    discharge: { pressure: pd, elevation: readings.discharge.elevation, pipeDiameter: readings.discharge.diameter, accuracy: readings.discharge.accuracy ?? undefined },
     measuredFlow: readings.flow ?? undefined,
     measuredPower,
     grades: [grade],
@@ -207,13 +207,16 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     : null;
   if (impossiblePower) engine = runEngine(undefined);
   warnings.push(...engine.warnings.map((w) => w.message));
-  const headUncertainty = Math.hypot(readings.suction.accuracy, readings.discharge.accuracy) / (rho * G0);
+  // An accuracy not given (null: a blank field) is unknown, never a perfect instrument: it widens nothing — the reading is
+  // taken as read on that quantity, and every sentence with the uncertainty says it was not given (`uncertaintyWords`).
+  const headUncertainty = Math.hypot(readings.suction.accuracy ?? 0, readings.discharge.accuracy ?? 0) / (rho * G0);
+  const flowAccuracy = readings.flowAccuracy ?? 0;
   // The grade's power and efficiency limits, where missed as read, within the power reading's accuracy (when entered).
   const asRead = engine.grades.find((g) => g.id === grade.id)?.power ?? null;
   const powerAccuracy = readings.power.mode === "none" ? null : (readings.power.readingAccuracy ?? null);
   const powerWithin = asRead?.pass === false && powerAccuracy !== null && shaft !== null && engine.flow !== null
     ? gradePowerWithinAccuracy(curve, engine.flow, engine.tdh, rho, shaft, grade, powerAccuracy) : null;
-  const judged = verdictFor(curve, grade, engine, readings.flowAccuracy, headUncertainty, powerWithin);
+  const judged = verdictFor(curve, grade, engine, flowAccuracy, headUncertainty, powerWithin);
   const { within } = judged;
   let verdict = judged.verdict;
   // The curve is translated to the measured speed by the affinity laws, which a test may use only near the
@@ -239,23 +242,25 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   if (atVapour) warnings.push(vapourNoVerdict ? `No tolerance verdict: ${atVapour}` : `${atVapour.charAt(0).toUpperCase()}${atVapour.slice(1)}`);
   // A measured flow outside the curve's published flows: judged only on the part of the cross that reaches the published
   // curve, and said so; where the cross does not reach it, no tolerance verdict (curve-ends.ts).
-  const curveEnd = verdict !== "unknown" && engine.flowSource === "measured" && engine.flow !== null ? curveEndOf(curve, engine.flow, grade, readings.flowAccuracy) : null;
-  const endNote = curveEnd ? (curveEnd.reaches ? curveEndJudgedNote(curveEnd, grade.id, grade, readings.flowAccuracy) : curveEndNoVerdict(curveEnd, grade.id, grade, readings.flowAccuracy)) : null;
+  const curveEnd = verdict !== "unknown" && engine.flowSource === "measured" && engine.flow !== null ? curveEndOf(curve, engine.flow, grade, flowAccuracy) : null;
+  const endNote = curveEnd ? (curveEnd.reaches ? curveEndJudgedNote(curveEnd, grade.id, grade, flowAccuracy) : curveEndNoVerdict(curveEnd, grade.id, grade, flowAccuracy)) : null;
   if (curveEnd && !curveEnd.reaches) verdict = "unknown";
   if (endNote) warnings.push(endNote);
   // Marginal within the readings' uncertainty only while it is no wider than the grade's own tolerance (uncertainty-bound.ts):
   // wider, the box straddles the grade whatever the pump does, so no tolerance verdict, with both numbers.
   const curveHeadHere = engine.curveHead ?? (within ? headAt(curve, Math.min(Math.max(within.flow, curve.flowMin), curve.flowMax)) : null);
-  const tooWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
+  const boxWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
+  // The same where the marginal rests on the power reading's accuracy: wider than the grade's power tolerance, no verdict.
+  const powerWide = powerWithin && verdict === "marginal" ? powerAccuracyTooWide(grade, powerAccuracy) : null;
+  const tooWide = boxWide || powerWide ? { gradeId: grade.id, head: boxWide?.head ?? null, flow: boxWide?.flow ?? null, power: powerWide } : null;
   if (tooWide) {
     verdict = "unknown";
     warnings.push(uncertaintyNoVerdict(tooWide, grade, rho));
   }
   // Within the readings' uncertainty: the point that meets the grade, with the uncertainty (the note and the verdict's sentence).
-  // A flow meter's accuracy not given is said so (it was "flow ± 0.0 %"): the flow is taken as read.
-  const flowWords = readings.flowAccuracy > 0 ? `flow ± ${fmtPctExact(readings.flowAccuracy)}` : "flow as read: the meter's accuracy not given";
+  // An accuracy not given is said so (it was "flow ± 0.0 %", "head ± 0.00 m"): that quantity is taken as read.
   const withinWords = within && verdict === "marginal"
-    ? `(${flowWords}, head ± ${qt("head", headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
+    ? `(${uncertaintyWords(readings, headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
     : null;
   if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
@@ -328,6 +333,21 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   };
   result.hints = hintsFor(result);
   return result;
+}
+
+/**
+ * The readings' uncertainty as the marginal sentence states it, an accuracy not given said so (never as ±0): "flow ± 2 %,
+ * head ± 0.36 m", "flow as read: the meter's accuracy not given, head ± 0.25 m (the discharge gauge's accuracy not given)",
+ * "…, head as read: the gauges' accuracy not given". An entered 0 is stated as given ("flow ± 0 %").
+ * @param r the readings (accuracies ± Pa and ± fraction, null when not given)
+ * @param headUncertainty the gauges' given accuracies in quadrature over ρ·g, m
+ */
+export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "flowAccuracy">, headUncertainty: number): string {
+  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${r.flowAccuracy === 0 ? "0 %" : fmtPctExact(r.flowAccuracy)}`;
+  const missing = [r.suction.accuracy === null ? "suction" : null, r.discharge.accuracy === null ? "discharge" : null].filter((x) => x !== null);
+  const head = missing.length === 2 ? "head as read: the gauges' accuracy not given"
+    : `head ± ${qt("head", headUncertainty)}${missing.length ? ` (the ${missing[0]} gauge's accuracy not given)` : ""}`;
+  return `${flow}, ${head}`;
 }
 
 /**

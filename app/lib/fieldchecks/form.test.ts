@@ -10,7 +10,7 @@ describe("parseCheckFields: numbers as typed", () => {
   it("refuses 1,500 rpm as ambiguous on its field and says how to write it; 1500 and 1,5 are read", () => {
     const r = parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1,500" }), { kind: "water" });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.errors.rpm).toBe("The speed “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
+    if (!r.ok) expect(r.errors.rpm).toBe("The speed “1,500” is ambiguous: 1500 (a thousands comma) or 1.500 (a decimal comma)? Write 1500 or 1 500 for the first, 1.500 or 1.5 for the second.");
     expect(parseCheckFields(fieldsForHead(20, RHO20, { rpm: "1500" }), { kind: "water" }).ok).toBe(true);
     const comma = parseCheckFields(fieldsForHead(20, RHO20, { sElevation: "0,5" }), { kind: "water" });
     expect(comma.ok && comma.readings.suction.elevation).toBe(0.5);
@@ -19,7 +19,7 @@ describe("parseCheckFields: numbers as typed", () => {
     const r = parseCheckFields(fieldsForHead(20, RHO20, { sDiameter: "0x64", dDiameter: "1e309" }), { kind: "water" });
     expect(r.ok).toBe(false);
     if (!r.ok) {
-      expect(r.errors.sDiameter).toBe("The suction pipe inner diameter must be a number; the form takes from 5 mm to 3\u202f000 mm."); // the range in the unit typed (helper "fieldedge2")
+      expect(r.errors.sDiameter).toBe("The suction pipe inner diameter must be a number, not “0x64”; the form takes from 5 mm to 3\u202f000 mm."); // the range in the unit typed (helper "fieldedge2")
       expect(r.errors.dDiameter).toMatch(/must be a number: “1e309” is out of range/);
     }
   });
@@ -39,7 +39,7 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
     const high = at(water, WATER_RANGE_C.max + 0.1);
     const low = at(water, WATER_RANGE_C.min - 0.1);
     expect(high.ok || high.errors.temperature).toBe(
-      "Fluid temperature is too high: the form takes 0 to 100 °C — water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system).",
+      "Fluid temperature is too high: the form takes 0 to 100 °C, not 100.1 °C — water's properties are computed for this range only (IAPWS formulations; describe another liquid or temperature as a user-defined fluid on the system).",
     );
     expect(low.ok || low.errors.temperature).toMatch(/^Fluid temperature is too low: the form takes 0 to 100 °C/);
     // In °F: 212 °F is 100 °C (taken), 212.5 °F is past it.
@@ -51,7 +51,7 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
   it("a user-defined liquid takes 150 °C (past water's range) and refuses 201 °C", () => {
     expect(at(custom, 150).ok).toBe(true);
     const r = at(custom, 201);
-    expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C — the form's plausibility bounds for a user-defined liquid/);
+    expect(r.ok || r.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −20 to 200 °C, not 201 °C — the form's plausibility bounds for a user-defined liquid/);
   });
 
   it("each end the hint shows in °F is taken as typed: 392 °F (200 °C, 200.00000000000003 once converted) and −4 °F", () => {

@@ -42,8 +42,11 @@ export type GaugeSI = {
   elevation: number;
   /** Pipe inner diameter at the tap, m. */
   diameter: number;
-  /** Gauge accuracy, ± Pa (0 when not stated). */
-  accuracy: number;
+  /**
+   * Gauge accuracy, ± Pa; null when not given (a blank field: unknown, never a perfect gauge). Readings recorded before a
+   * blank was kept stored 0 for it: `readStoredCheck` reads such a 0 back as null where its field was blank.
+   */
+  accuracy: number | null;
 };
 
 export type SpeedSI =
@@ -76,8 +79,8 @@ export type Readings = {
   discharge: GaugeSI;
   /** Flow meter reading, m³/s, or null without a meter. */
   flow: number | null;
-  /** Flow meter accuracy as a fraction of reading (0 when not stated). */
-  flowAccuracy: number;
+  /** Flow meter accuracy as a fraction of the reading; null when not given (as the gauges' accuracy). */
+  flowAccuracy: number | null;
   speed: SpeedSI;
   power: PowerSI;
   /** Fluid temperature, °C. */
@@ -220,21 +223,27 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     const x = decimalField(f[key] ?? "", key, label, errors, !opts.optional);
     if (x === null) {
       // Not a number (NaN, Infinity, 1e400…): the message says so, then the range the field takes.
-      if (range && errors[key] && !errors[key].startsWith("Enter ") && !errors[key].includes("ambiguous")) errors[key] = `${errors[key].replace(/\.$/, "")}; the form takes ${range}.`;
+      // Text that is not a number is named too ("…must be a number, not “0x64”; …"), as a number out of range is.
+      const raw = f[key] ?? "";
+      const named = errors[key]?.endsWith(" must be a number.") ? `${errors[key].slice(0, -1)}, not “${raw.length > 40 ? `${raw.slice(0, 39)}…` : raw}”.` : errors[key];
+      if (range && named && !named.startsWith("Enter ") && !named.includes("ambiguous")) errors[key] = `${named.replace(/\.$/, "")}; the form takes ${range}.`;
       return null;
     }
+    // The number refused, in the unit typed, as the system editor's refusals name it (projects/run-ranges.ts `outOfRange`):
+    // ", not −350 kPa". Written in full (never rounded onto the end it is past), grouped as the ends are.
+    const not = `, not ${sentText(x)}${w}`;
     // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
     if (!(Math.abs(x) <= MAX_MAGNITUDE)) {
-      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}${takes}; check the value and its unit.`;
+      errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}${takes}${not}; check the value and its unit.`;
       return null;
     }
     const si = q ? toSI(q, unit, x) : x;
     if (opts.min !== undefined && (opts.minOpen ? !(si > opts.min) : si < opts.min)) {
-      errors[key] = `${capital(label)} is too low${takes}; check the value and its unit.`;
+      errors[key] = `${capital(label)} is too low${takes}${not}; check the value and its unit.`;
       return null;
     }
     if (opts.max !== undefined && si > opts.max) {
-      errors[key] = `${capital(label)} is too high${takes}; check the value and its unit.`;
+      errors[key] = `${capital(label)} is too high${takes}${not}; check the value and its unit.`;
       return null;
     }
     return si;
@@ -255,7 +264,8 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
       max: 1e8,
       why: reference === "absolute" ? "an absolute reading is never below zero; up to 1\u202f000 bar" : "a gauge reads no lower than full vacuum, −1 standard atmosphere gauge; up to 1\u202f000 bar",
     });
-    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" }) ?? 0;
+    // Blank is "not given" (null), kept apart from an entered 0 everywhere after (decision "fieldmeter").
+    const accuracy = num(`${p}Accuracy`, `the ${side} gauge accuracy`, "pressure", pUnit, { optional: true, min: 0, max: 1e7, why: "± the reading" });
     const elevation = num(`${p}Elevation`, `the ${side} gauge elevation`, "length", eUnit, { min: -100, max: 100 });
     const diameter = num(`${p}Diameter`, `the ${side} pipe inner diameter`, "diameter", dUnit, { min: 0.005, max: 3 });
     if (pressure === null || elevation === null || diameter === null) return null;
@@ -300,7 +310,9 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   // "too high: the form takes −4 to 392 °F" (the conversion's last bit, not the reading).
   for (const end of [tLimits.min, tLimits.max]) if (temperatureC !== null && Math.abs(temperatureC - end) <= END_SLACK_C) temperatureC = end;
   if (temperatureC !== null && (temperatureC < tLimits.min || temperatureC > tLimits.max)) {
-    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)} — ${tLimits.rule}.`;
+    // The number as typed (read again: −4 °F through °C and back is −3.9999999999999964), in the unit typed.
+    const typed = decimalField(f.temperature ?? "", "temperature", "", {}) ?? fromSI("temperature", tUnit, temperatureC);
+    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)}, not ${sentText(typed)} ${unitLabel("temperature", tUnit)} — ${tLimits.rule}.`;
     temperatureC = null;
   }
   const notes = f.notes ?? "";
@@ -308,7 +320,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   if (Object.keys(errors).length || !suction || !discharge || temperatureC === null) return { ok: false, errors, fields: f };
   return {
     ok: true,
-    readings: { suction, discharge, flow, flowAccuracy: (flowAccPct ?? 0) / 100, speed, power, temperatureC },
+    readings: { suction, discharge, flow, flowAccuracy: flowAccPct === null ? null : flowAccPct / 100, speed, power, temperatureC },
     notes,
     fields: f,
   };
@@ -329,6 +341,15 @@ function powerAccuracyOf(typed: string, errors: Record<string, string>): number 
   if (pct >= 0 && pct <= POWER_ACCURACY_MAX_PCT) return pct / 100;
   errors.powerAccuracy = `The power reading accuracy must be ${range}: “${typed}” is ${pct < 0 ? "negative" : `past ${POWER_ACCURACY_MAX_PCT} %`}.`;
   return null;
+}
+
+/**
+ * A number as it was sent, for a refusal: every digit of it (the shortest text that reads back as it, never rounded onto
+ * an end it is past), its whole part grouped by narrow no-break spaces as the ends are, a minus sign: "−101.326", "350 000".
+ * @param x the number read from the field, in the unit typed
+ */
+function sentText(x: number): string {
+  return groupThousands(String(x)).replace("-", "−");
 }
 
 function capital(s: string) {

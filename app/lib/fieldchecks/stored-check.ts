@@ -18,7 +18,7 @@ const str = v.string();
 const obj = v.looseObject;
 const fraction = v.pipe(num, v.minValue(0), v.maxValue(1));
 
-const Gauge = obj({ pressure: num, reference: v.picklist(["gauge", "absolute"]), elevation: num, diameter: num, accuracy: num });
+const Gauge = obj({ pressure: num, reference: v.picklist(["gauge", "absolute"]), elevation: num, diameter: num, accuracy: numOrNull });
 const Speed = v.variant("mode", [
   obj({ mode: v.literal("none") }),
   obj({ mode: v.literal("rpm"), rpm: num }),
@@ -32,7 +32,7 @@ const Power = v.variant("mode", [
 
 /** field_checks.readings_json: the readings in SI and the form's fields as typed (an amendment starts from them). */
 export const StoredReadingsSchema = obj({
-  readings: obj({ suction: Gauge, discharge: Gauge, flow: numOrNull, flowAccuracy: num, speed: Speed, power: Power, temperatureC: num }),
+  readings: obj({ suction: Gauge, discharge: Gauge, flow: numOrNull, flowAccuracy: numOrNull, speed: Speed, power: Power, temperatureC: num }),
   fields: v.record(str, str),
 });
 
@@ -134,13 +134,23 @@ export type StoredCheck = { ok: true; readings: Readings; fields: CheckFields; r
 const underResult = (p: DocProblem): DocProblem =>
   p.keys.length ? { ...p, keys: ["result", ...p.keys], path: `result.${p.path}`, label: `result, ${p.label}` } : { ...p, keys: ["result"], path: "result" };
 
+/**
+ * Readings recorded before a blank accuracy was kept as null stored 0 for it (a perfect instrument, read back so): where
+ * the form's field as typed is blank, such a 0 is read as not given. An entered 0 ("0" in its field) stays 0.
+ */
+function blanksNotGiven(r: Readings, fields: CheckFields): Readings {
+  const blank = (key: string, x: number | null) => (x === 0 && (fields[key] ?? "").trim() === "" ? null : x);
+  const gauge = (g: Readings["suction"], key: string) => ({ ...g, accuracy: blank(key, g.accuracy) });
+  return { ...r, suction: gauge(r.suction, "sAccuracy"), discharge: gauge(r.discharge, "dAccuracy"), flowAccuracy: blank("flowAccuracy", r.flowAccuracy) };
+}
+
 /** A recorded check's readings and result as stored when both pass their schemas, else what is wrong with them (both, readings first). */
 export function readStoredCheck(row: { readingsJson: string; resultJson: string }): StoredCheck {
   const readings = readStoredDoc(row.readingsJson, StoredReadingsSchema, READINGS_WORDS);
   const result = readStoredDoc(row.resultJson, CheckResultSchema, RESULT_WORDS);
   if (readings.ok && result.ok) {
     const stored = readings.raw as { readings: Readings; fields: CheckFields };
-    return { ok: true, readings: stored.readings, fields: stored.fields, result: result.raw as CheckResult };
+    return { ok: true, readings: blanksNotGiven(stored.readings, stored.fields), fields: stored.fields, result: result.raw as CheckResult };
   }
   return { ok: false, problems: [...(readings.ok ? [] : readings.problems), ...(result.ok ? [] : result.problems.map(underResult))] };
 }

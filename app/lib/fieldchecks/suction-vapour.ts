@@ -18,7 +18,8 @@ import type { GaugeSI } from "./form";
 export function suctionAtVapour(suction: Pick<GaugeSI, "pressure" | "reference">, vaporPressure: number, temperatureC: number): string | null {
   const absolute = suction.reference === "absolute" ? suction.pressure : suction.pressure + STANDARD_ATMOSPHERE;
   if (!(absolute <= vaporPressure)) return null;
+  // A vacuum reading with the true minus sign (U+2212) outside its token: "−99.0 kPa gauge" on every surface (it read "-99.0").
   const [pText, pvText] = qtPair("pressure", absolute, vaporPressure); // never read as equal beside "below"
-  const read = suction.reference === "absolute" ? `${pText} absolute` : `${qt("pressure", suction.pressure)} gauge, ${pText} absolute against the standard atmosphere ${qt("pressure", STANDARD_ATMOSPHERE)}`;
+  const read = suction.reference === "absolute" ? `${pText} absolute` : `${suction.pressure < 0 ? "\u2212" : ""}${qt("pressure", Math.abs(suction.pressure))} gauge, ${pText} absolute against the standard atmosphere ${qt("pressure", STANDARD_ATMOSPHERE)}`;
   return `the suction reading (${read}) is ${absolute === vaporPressure ? "at" : "below"} the liquid's vapour pressure ${pvText} at ${qt("temperature", temperatureC)}: the liquid at the suction tap would boil. Either the reading is wrong (its reference gauge or absolute, its unit, its zero) or the pump is cavitating; the head is worked out from the readings as read, and is not the pump's performance on its curve.`;
 }

@@ -134,7 +134,7 @@ describe("field checks sent from the phone's queue", () => {
     const clientId = crypto.randomUUID();
     const res = await send(clientId, { temperature: "150", basedOn: "" });
     expect(res.status).toBe(400);
-    expect((res.body as { errors: Record<string, string> }).errors.temperature).toMatch(/^Fluid temperature is too high: the form takes 0 to 100 °C — water's properties/);
+    expect((res.body as { errors: Record<string, string> }).errors.temperature).toMatch(/^Fluid temperature is too high: the form takes 0 to 100 °C, not 150 °C — water's properties/);
     const inF = await send(clientId, { temperatureUnit: "F", temperature: "213", basedOn: "" }); // 213 °F = 100.6 °C
     expect((inF.body as { errors: Record<string, string> }).errors.temperature).toMatch(/the form takes 32 to 212 °F/);
     expect(await rowsOf(clientId)).toHaveLength(0);

@@ -10,6 +10,10 @@
 // Rule (decision "gaugebound", common practice): head uncertainty ΔH = √(a_s² + a_d²)/(ρ·g) against half the head arm's
 // width at the curve's head at the measured flow, (t_H− + t_H+)/2 × H_curve; the flow meter's accuracy (fraction) against
 // half the flow arm's width, (t_Q− + t_Q+)/2; either one wider (strictly: equal is within) is too wide.
+// The power reading's accuracy likewise (decision "fieldmeter"): a check marginal only because a shaft power within the
+// reading's ±a meets the grade's power and efficiency limits (power-grade.ts) says nothing where a is wider than the grade's
+// power tolerance t_P (+8 % for 2B): ±20 % let a pump drawing (1 + 8 %)/(1 − 20 %) = 1.35 × the curve's power read
+// "at the tolerance limit". Wider (a > t_P; equal is within), no tolerance verdict, with both numbers.
 import { G0, type ToleranceGrade } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSide, qt, qtExact, qtLimit } from "~/engine/quantityText";
 
@@ -20,6 +24,8 @@ export type UncertaintyTooWide = {
   head: { uncertainty: number; tolerance: number; curveHead: number } | null;
   /** Fractions: the flow meter's accuracy and the grade's flow tolerance either side. */
   flow: { accuracy: number; tolerance: number } | null;
+  /** Fractions: the power reading's accuracy and the grade's power tolerance (above the curve's); null or missing where within. */
+  power?: { accuracy: number; tolerance: number } | null;
 };
 
 /** Half the width of a tolerance band [below, above] (fractions): what either side of its middle allows. */
@@ -40,14 +46,26 @@ export function headTolerance(grade: Pick<ToleranceGrade, "head">, curveHead: nu
  * @param grade tolerance grade (fractions)
  * @param curveHead the curve's head at the measured flow, m
  * @param headUncertainty the head's uncertainty, ± m (the gauges' in quadrature over ρ·g)
- * @param flowAccuracy the flow meter's accuracy, ± fraction of the reading (0: not given)
+ * @param flowAccuracy the flow meter's accuracy, ± fraction of the reading; null when not given (unknown: not compared, as it
+ *   widened nothing — the flow taken as read, and said so)
  */
-export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "flow">, curveHead: number, headUncertainty: number, flowAccuracy: number): UncertaintyTooWide | null {
+export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "flow">, curveHead: number, headUncertainty: number, flowAccuracy: number | null): UncertaintyTooWide | null {
   const hTol = headTolerance(grade, curveHead);
   const qTol = half(grade.flow);
   const head = headUncertainty > hTol ? { uncertainty: headUncertainty, tolerance: hTol, curveHead } : null;
-  const flow = flowAccuracy > qTol ? { accuracy: flowAccuracy, tolerance: qTol } : null;
+  const flow = flowAccuracy !== null && flowAccuracy > qTol ? { accuracy: flowAccuracy, tolerance: qTol } : null;
   return head || flow ? { gradeId: grade.id, head, flow } : null;
+}
+
+/**
+ * Where the power reading's accuracy is wider than the grade's power tolerance (a > t_P, strictly): both numbers; null
+ * where it is within, where no accuracy was given (the power judged as read) or where the grade sets no power limit.
+ * @param grade tolerance grade (fractions)
+ * @param accuracy the power reading's accuracy, ± fraction of the reading, or null when not given
+ */
+export function powerAccuracyTooWide(grade: Pick<ToleranceGrade, "powerAbove">, accuracy: number | null): { accuracy: number; tolerance: number } | null {
+  if (accuracy === null || grade.powerAbove === undefined) return null;
+  return accuracy > grade.powerAbove ? { accuracy, tolerance: grade.powerAbove } : null;
 }
 
 /** A band's tolerance either side, and where the band is one-sided (1U, 2U) which band it is half of: "5 %", "3 %, half its 0 % to +6 % band,". */
@@ -61,6 +79,7 @@ function compared(w: UncertaintyTooWide): string[] {
   return [
     w.head ? `head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} against ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])}` : null,
     w.flow ? `flow ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
+    w.power ? `power ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against +${fmtPctLimit(w.power.tolerance)}` : null,
   ].filter((x): x is string => x !== null);
 }
 
@@ -83,10 +102,12 @@ export function uncertaintyNoVerdict(w: UncertaintyTooWide, grade: Pick<Toleranc
       ? `in head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} (the two gauges' accuracies in quadrature over ρ·g) against grade ${w.gradeId}'s ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])} (${sideText(grade.head)} of the curve's ${qt("head", w.head.curveHead)} at the measured flow)`
       : null,
     w.flow ? `in flow the meter's ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
+    w.power ? `in power the reading's ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
   ].filter((x): x is string => x !== null);
   const finer = [
     w.head ? `gauges within about ±${qt("pressure", (w.head.tolerance * density * G0) / Math.SQRT2)} each (equal gauges, for the head within ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])})` : null,
     w.flow ? `a flow meter within ±${fmtPctLimit(w.flow.tolerance)}` : null,
+    w.power ? `a power reading within ±${fmtPctLimit(w.power.tolerance)}` : null,
   ].filter((x): x is string => x !== null);
   return `No tolerance verdict: the readings' uncertainty is wider than the grade's own tolerance — ${parts.join("; ")} — so the readings cannot tell a pass from a fail: a point within their uncertainty meets grade ${w.gradeId} however far off the pump is, and "at the tolerance limit" would say more than they do. A grade's tolerance already holds the test's measurement uncertainty (ISO 9906:2012, from memory). Check again with ${finer.join(" and ")}, or finer.`;
 }

@@ -43,7 +43,7 @@ describe("mappingFromForm", () => {
       expect(r.mapping, bad).toBeUndefined();
       expect(r.error, bad).toMatch(/^The default speed .*\. The default impeller .*\.$/);
     }
-    expect(mappingFromForm(form({ defaultSpeed: "1,450" })).error).toBe("The default speed “1,450” is ambiguous (a thousands comma or a decimal comma?): write 1450, or 1.45.");
+    expect(mappingFromForm(form({ defaultSpeed: "1,450" })).error).toBe("The default speed “1,450” is ambiguous: 1450 (a thousands comma) or 1.450 (a decimal comma)? Write 1450 or 1 450 for the first, 1.450 or 1.45 for the second.");
     expect(mappingFromForm(form({ defaultSpeed: "1450" })).mapping!.defaults.speed).toBe(1450);
   });
   it("policy and encoding: only the known values", () => {

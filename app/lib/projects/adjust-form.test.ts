@@ -39,7 +39,7 @@ describe("readAdjustForm", () => {
     for (const ie of ["IE2", "IE3", "IE4"]) expect(readAdjustForm(form({ ...base, ieClass: ie }), SI_UNITS).adjustment?.ieClass).toBe(ie);
   });
   it("refuses 1,000 hp as ambiguous and says how to write it; 1000 is 1000 hp", () => {
-    expect(readAdjustForm(form({ ...base, motorRating: "1,000" }), US_UNITS).error).toBe("The motor rating “1,000” is ambiguous (a thousands comma or a decimal comma?): write 1000, or 1.");
+    expect(readAdjustForm(form({ ...base, motorRating: "1,000" }), US_UNITS).error).toBe("The motor rating “1,000” is ambiguous: 1000 (a thousands comma) or 1.000 (a decimal comma)? Write 1000 or 1 000 for the first, 1.000 or 1 for the second.");
     // 1 hp = 745.69987158227 W (NIST SP 811)
     expect(readAdjustForm(form({ ...base, motorRating: "1000" }), US_UNITS).adjustment?.motorRating).toBeCloseTo(745699.87158227, 4);
     expect(readAdjustForm(form({ ...base, ratio: "0x50" }), SI_UNITS).error).toBe("The ratio must be a number.");

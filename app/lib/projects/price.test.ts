@@ -5,7 +5,7 @@ import { readPriceCents } from "./energy";
 
 describe("readPriceCents", () => {
   it("refuses 12,500 as ambiguous (thousands or decimal comma), says how to write it; 12500 and 12,50 are read", () => {
-    expect(readPriceCents("12,500")).toEqual({ error: "The purchase price “12,500” is ambiguous (a thousands comma or a decimal comma?): write 12500, or 12.5." });
+    expect(readPriceCents("12,500")).toEqual({ error: "The purchase price “12,500” is ambiguous: 12500 (a thousands comma) or 12.500 (a decimal comma)? Write 12500 or 12 500 for the first, 12.500 or 12.5 for the second." });
     expect(readPriceCents("12500")).toEqual({ cents: 1_250_000 });
     expect(readPriceCents("12,50")).toEqual({ cents: 1250 });
   });

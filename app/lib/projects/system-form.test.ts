@@ -19,13 +19,13 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
   it("refuses 1,500 gpm as ambiguous, with how to write it; takes 1500 and 1,5", () => {
     const bad = read({ dutyFlow: "1,500" });
     expect(bad.input).toBeNull();
-    expect(bad.errors.dutyFlow).toBe("Duty flow “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
+    expect(bad.errors.dutyFlow).toBe("Duty flow “1,500” is ambiguous: 1500 (a thousands comma) or 1.500 (a decimal comma)? Write 1500 or 1 500 for the first, 1.500 or 1.5 for the second.");
     expect(read({ dutyFlow: "1500" }).input!.duty!.flow).toBeCloseTo(1500 * GPM, 9);
     expect(read({ dutyFlow: "1,5" }).input!.duty!.flow).toBeCloseTo(1.5 * GPM, 12);
   });
   it("refuses the other ambiguous fields the same way: hours per year, a run's length", () => {
-    expect(read({ hoursPerYear: "8,760" }).errors.hoursPerYear).toMatch(/ambiguous.*write 8760, or 8\.76\./);
-    expect(read({ "run.0.length": "1,200" }).errors["run.0.length"]).toMatch(/ambiguous.*write 1200, or 1\.2\./);
+    expect(read({ hoursPerYear: "8,760" }).errors.hoursPerYear).toMatch(/ambiguous.*Write 8760 or 8 760 for the first, 8\.760 or 8\.76 for the second\./);
+    expect(read({ "run.0.length": "1,200" }).errors["run.0.length"]).toMatch(/ambiguous.*Write 1200 or 1 200 for the first, 1\.200 or 1\.2 for the second\./);
     expect(read({ hoursPerYear: "8760" }).input!.hoursPerYear).toBe(8760);
   });
   it("refuses hex and binary (Number() would read 0x10 as 16)", () => {
@@ -48,7 +48,7 @@ describe("readSystemForm: numbers as typed (product rules)", () => {
   it("load profile and life-cycle fields: an ambiguous number is refused on its field, its pair message does not replace it", () => {
     const energy = { "energy.control": "fixed-speed", "energy.profileKind": "user", "energy.step.0.pct": "100", "energy.step.0.hours": "1,000" };
     const r = read(energy, SI_UNITS);
-    expect(r.errors["energy.step.0.hours"]).toMatch(/ambiguous.*write 1000, or 1\./);
+    expect(r.errors["energy.step.0.hours"]).toMatch(/ambiguous.*Write 1000 or 1 000 for the first, 1\.000 or 1 for the second\./);
     expect(read({ ...energy, "energy.step.0.hours": "1000", "energy.years": "abc" }, SI_UNITS).errors["energy.years"]).toBe("Years must be a whole number from 1 to 50, written in digits: “abc” is not.");
     expect(read({ ...energy, "energy.step.0.hours": "1000" }, SI_UNITS).input!.energy!.profile).toEqual([{ flowFraction: 1, hours: 1000 }]);
   });

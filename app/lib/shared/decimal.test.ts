@@ -94,10 +94,18 @@ describe("readDecimal: thousands grouped by spaces, in every field (decision \"i
 });
 
 describe("messages", () => {
-  it("says why 1,500 is refused and how to write it either way", () => {
-    expect(decimalMessage(readDecimal("1,500"), "the duty flow")).toBe("The duty flow “1,500” is ambiguous (a thousands comma or a decimal comma?): write 1500, or 1.5.");
-    expect(decimalMessage(readDecimal("12,000"), "the length")).toMatch(/write 12000, or 12\.$/);
-    expect(decimalMessage(readDecimal("-1,250"), "the head")).toMatch(/write -1250, or -1\.25\.$/);
+  it("says why 1,500 is refused, names both readings and how to write each (never one guessed)", () => {
+    // source: the reader's rule above (a comma and exactly three digits is either separator; a point with three is a decimal)
+    expect(decimalMessage(readDecimal("1,500"), "the duty flow")).toBe("The duty flow “1,500” is ambiguous: 1500 (a thousands comma) or 1.500 (a decimal comma)? Write 1500 or 1 500 for the first, 1.500 or 1.5 for the second.");
+    // "1,000" was "write 1000, or 1.": the second reading now named as typed, 1.000, beside its shortest form
+    expect(decimalMessage(readDecimal("1,000"), "the flow reading")).toBe("The flow reading “1,000” is ambiguous: 1000 (a thousands comma) or 1.000 (a decimal comma)? Write 1000 or 1 000 for the first, 1.000 or 1 for the second.");
+    expect(decimalMessage(readDecimal("12,000"), "the length")).toMatch(/Write 12000 or 12 000 for the first, 12\.000 or 12 for the second\.$/);
+    expect(decimalMessage(readDecimal("-1,250"), "the head")).toMatch(/Write -1250 or -1 250 for the first, -1\.250 or -1\.25 for the second\.$/);
+    expect(decimalMessage(readDecimal("1,125"), "the head")).toMatch(/Write 1125 or 1 125 for the first, 1\.125 for the second\.$/);
+    // each way written as suggested reads back as that reading
+    for (const [typed, value] of [["1000", 1000], ["1 000", 1000], ["1.000", 1], ["1", 1], ["-1 250", -1250], ["-1.250", -1.25]] as const) expect(readDecimal(typed)).toEqual({ kind: "number", value });
+    // 1,5 is not ambiguous: a decimal comma (no one writes a thousands comma before fewer than three digits)
+    expect(readDecimal("1,5")).toEqual({ kind: "number", value: 1.5 });
   });
   it("a number out of range keeps 'must be a number'; thousands separators are named", () => {
     expect(decimalMessage(readDecimal("1e309"), "the duty flow")).toBe("The duty flow must be a number: “1e309” is out of range.");

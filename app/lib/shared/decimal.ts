@@ -39,8 +39,11 @@ const GROUPED = /^[+-]?\d+(?:[\s,.'\u00a0\u202f]\d+){2,}$|^[+-]?\d{1,3}(?:[\s'\u
 export type DecimalText =
   | { kind: "number"; value: number }
   | { kind: "blank" }
-  /** 1,500: `thousands` and `decimal` are the two ways to write what might have been meant. */
-  | { kind: "ambiguous"; text: string; thousands: string; decimal: string }
+  /**
+   * 1,500: the two readings, `thousands` (1500) and `decimalRead` (1.500, the digits typed), and `decimal` (1.5), the
+   * shortest way to write the second.
+   */
+  | { kind: "ambiguous"; text: string; thousands: string; decimalRead: string; decimal: string }
   | { kind: "range"; text: string }
   | { kind: "bad"; text: string; grouped: boolean };
 
@@ -54,7 +57,7 @@ export function readDecimal(raw: unknown, opts: { spaceGroups?: boolean } = {}):
   const groups = spaceGroups ? SPACE_GROUPS.exec(s) : null;
   if (groups) s = groups[1].replace(/[ \u00a0\u202f\u2009]/g, "") + (groups[2] ?? "");
   const amb = AMBIGUOUS_COMMA.exec(s);
-  if (amb) return { kind: "ambiguous", text: s, thousands: `${amb[1]}${amb[2]}${amb[3]}`, decimal: `${amb[1]}${amb[2]}${`.${amb[3]}`.replace(/\.?0+$/, "")}` };
+  if (amb) return { kind: "ambiguous", text: s, thousands: `${amb[1]}${amb[2]}${amb[3]}`, decimalRead: `${amb[1]}${amb[2]}.${amb[3]}`, decimal: `${amb[1]}${amb[2]}${`.${amb[3]}`.replace(/\.?0+$/, "")}` };
   if (!DOT_DECIMAL.test(s) && !COMMA_DECIMAL.test(s)) return { kind: "bad", text: s, grouped: GROUPED.test(s) };
   const value = Number(s.replace(",", "."));
   const mantissa = s.split(/[eE]/)[0];
@@ -82,6 +85,8 @@ export function decimalOrNaN(raw: unknown): number {
 }
 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+/** A whole number's digits grouped by spaces in threes, as the reader takes them back: "-12500" → "-12 500". */
+const spaced = (s: string) => s.replace(/\B(?=(\d{3})+$)/g, " ");
 const quoted = (s: string) => `“${s.length > 40 ? `${s.slice(0, 39)}…` : s}”`;
 
 /**
@@ -96,7 +101,8 @@ export function decimalMessage(r: DecimalText, label: string): string {
     case "blank":
       return `Enter ${label}.`;
     case "ambiguous":
-      return `${L} ${quoted(r.text)} is ambiguous (a thousands comma or a decimal comma?): write ${r.thousands}, or ${r.decimal}.`;
+      // Both readings named, never one guessed: "1,000" is 1000 with a thousands comma or 1.000 with a decimal comma.
+      return `${L} ${quoted(r.text)} is ambiguous: ${r.thousands} (a thousands comma) or ${r.decimalRead} (a decimal comma)? Write ${r.thousands} or ${spaced(r.thousands)} for the first, ${r.decimal === r.decimalRead ? r.decimal : `${r.decimalRead} or ${r.decimal}`} for the second.`;
     case "range":
       return `${L} must be a number: ${quoted(r.text)} is out of range.`;
     case "bad":
