@@ -301,8 +301,7 @@ export function operatingPointInSystem(
   system: SystemSpec | PreparedSystem,
   which: SystemCase = {},
 ): OperatingPointResult {
-  const sys = "fixedHead" in system && "static" in system ? system : prepareSystem(system as SystemSpec);
-  return solveOperatingPoint(curve, systemHeadFunction(sys, which));
+  return solveOperatingPoint(curve, systemHeadFunction(system, which));
 }
 
 /** A simple system for {@link operatingPoint}: static head plus pipe segments in series, water. */
