@@ -31,6 +31,7 @@ import { brent } from "./roots.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
 import { qt, qtPair } from "./quantityText.ts";
+import { LIMIT_ROUNDING } from "./limitText.ts";
 
 export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end" | "coincident";
 
@@ -168,6 +169,15 @@ function solveInner(
   // pump running past its curve: within LAST_POINT_MATCH of the head the curves meet at the last point.
   const lastI = gs.length - 1;
   gs[lastI] = lastPointGap(evalCubic(c.head, qs[lastI]) as number, systemHead(qs[lastI]));
+  // A crossing past the last point by no more than LIMIT_ROUNDING of its flow (limitText.ts: a value within it of its limit is
+  // at the limit, and prints as it) is a meeting at the last point, not a pump running past its curve: the pump's head above
+  // the system's there by no more than the system gains on it over that flow (its slope less the curve's end slope, read
+  // just inside the curve; nothing is read past the end). Further out, "beyond-curve-end" as before.
+  if (gs[lastI] > 0 && lastI > 0) {
+    const qL = qs[lastI], dq = Math.min(qL * 1e-6, qL - qs[lastI - 1]);
+    const gains = (systemHead(qL) - systemHead(qL - dq)) / dq - c.head.m[c.head.m.length - 1]; // m per m³/s
+    if (gains > 0 && gs[lastI] <= gains * LIMIT_ROUNDING * qL) gs[lastI] = 0;
+  }
   // Where the curves run together, g is zero to rounding (LAST_POINT_MATCH of the pump's head) on two samples or more in a
   // row: one stretch where they coincide (a flat stretch of the pump's curve against a system curve as flat at that head),
   // not a crossing at every sample (before, 17 "intersections" of a "drooping curve" on a 30 m stretch against 30 m).
@@ -243,7 +253,7 @@ function solveInner(
   if (fromRest === "beyond-curve-end") {
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
+      message: `At the curve's last published point, ${qt("flow", last.flow)}, the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve (the curves meet further out, where it has no data)` };
   }
   const chosenAt = fromRest; // a sign of 0 past it: nothing sampled past it (the curve's last point)
   const chosen = roots[chosenAt];
