@@ -126,15 +126,22 @@ const LAST_POINT_MATCH = 1e-12;
  * of the pump's head are rounding (a system curve drawn through the last published point computes an ulp or two off it),
  * and the curves meet there (0): above, the pump would otherwise be said to run past its curve; below, the crossing would
  * land an ulp short of the point. The one rule of `solveOperatingPoint` and the charts' `crossingOf`.
+ * With `past`, also a crossing past the last point by no more than LIMIT_ROUNDING of its flow (limitText.ts: within it a
+ * value is at its limit, and prints as it) is a meeting there: the pump's head above the system's by no more than the
+ * system gains on it over that flow (nothing is read past the end).
  * @param pumpHead the pump's head at its curve's last flow, m (or any one head unit)
  * @param systemHead the system's head at that flow, same unit
- * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only
+ * @param past the curve's last flow (m³/s, or any unit) and `gains`, the system's slope less the curve's end slope there,
+ *   read just inside the curve (m per m³/s, or the same units)
+ * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only or meet within LIMIT_ROUNDING past
  */
-export function lastPointGap(pumpHead: number, systemHead: number): number {
+export function lastPointGap(pumpHead: number, systemHead: number, past?: { flow: number; gains: number }): number {
   requireFinite("pumpHead", pumpHead);
   requireFinite("systemHead", systemHead);
   const gap = pumpHead - systemHead;
-  return Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead) ? 0 : gap;
+  if (Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead)) return 0;
+  if (past && gap > 0 && past.gains > 0 && past.flow > 0 && gap <= past.gains * LIMIT_ROUNDING * past.flow) return 0;
+  return gap;
 }
 
 /** A meeting of the curves: a crossing, a touch (g keeps its sign on both sides), or a stretch where they coincide. */
@@ -168,16 +175,11 @@ function solveInner(
   // published point computes an ulp or two below it: 30.509999999999998 m against 30.51 m) is a meeting there, not a
   // pump running past its curve: within LAST_POINT_MATCH of the head the curves meet at the last point.
   const lastI = gs.length - 1;
-  gs[lastI] = lastPointGap(evalCubic(c.head, qs[lastI]) as number, systemHead(qs[lastI]));
-  // A crossing past the last point by no more than LIMIT_ROUNDING of its flow (limitText.ts: a value within it of its limit is
-  // at the limit, and prints as it) is a meeting at the last point, not a pump running past its curve: the pump's head above
-  // the system's there by no more than the system gains on it over that flow (its slope less the curve's end slope, read
-  // just inside the curve; nothing is read past the end). Further out, "beyond-curve-end" as before.
-  if (gs[lastI] > 0 && lastI > 0) {
-    const qL = qs[lastI], dq = Math.min(qL * 1e-6, qL - qs[lastI - 1]);
-    const gains = (systemHead(qL) - systemHead(qL - dq)) / dq - c.head.m[c.head.m.length - 1]; // m per m³/s
-    if (gains > 0 && gs[lastI] <= gains * LIMIT_ROUNDING * qL) gs[lastI] = 0;
-  }
+  // A crossing past the last point by no more than LIMIT_ROUNDING of its flow is a meeting there too, not a pump running
+  // past its curve (lastPointGap's `past`): the system's slope less the curve's end slope, read just inside the curve.
+  const qL = qs[lastI], dq = Math.min(qL * 1e-6, qL - qs[Math.max(0, lastI - 1)]);
+  const gains = dq > 0 ? (systemHead(qL) - systemHead(qL - dq)) / dq - c.head.m[c.head.m.length - 1] : 0; // m per m³/s
+  gs[lastI] = lastPointGap(evalCubic(c.head, qL) as number, systemHead(qL), Number.isFinite(gains) ? { flow: qL, gains } : undefined);
   // Where the curves run together, g is zero to rounding (LAST_POINT_MATCH of the pump's head) on two samples or more in a
   // row: one stretch where they coincide (a flat stretch of the pump's curve against a system curve as flat at that head),
   // not a crossing at every sample (before, 17 "intersections" of a "drooping curve" on a 30 m stretch against 30 m).
