@@ -16,7 +16,11 @@
  *   valve); no operating point is reachable from rest, whatever crossings lie further out (they are listed in
  *   `points` and named in the message, the first one unstable);
  * - `beyond-curve-end`: pump head still exceeds system head at the last point — the pump
- *   would run out past the end of its published curve.
+ *   would run out past the end of its published curve;
+ * - `coincident`: the curves coincide (heads equal to rounding on consecutive samples) over a stretch the pump reaches
+ *   from rest: no single operating point (flow/head null), the stretch in `stretch` and the message.
+ * Heads equal to rounding at one sample with the same sign on both sides are a touch: one point (the warning
+ * `touching-curves`), where a pump flowing up to it from above stops.
  * A reported point where the curves do not actually meet (the system curve jumps across the pump's head,
  * as Darcy friction does at Re 2000) carries the warning `system-curve-jump` with both heads.
  */
@@ -27,8 +31,9 @@ import { brent } from "./roots.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
 import { qt, qtPair } from "./quantityText.ts";
+import { LIMIT_ROUNDING } from "./limitText.ts";
 
-export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end";
+export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end" | "coincident";
 
 /** A flow/head pair, m³/s and m. */
 export interface DutyPoint {
@@ -59,6 +64,8 @@ export interface OperatingPointResult {
    * and the first one's instability, in words with the numbers (the message's own clause); absent otherwise.
    */
   unreached?: string;
+  /** With `coincident`: the stretch where the curves coincide, flows m³/s and head m; absent otherwise. */
+  stretch?: { flowFrom: number; flowTo: number; head: number };
   warnings: EngineWarning[];
 }
 
@@ -119,16 +126,26 @@ const LAST_POINT_MATCH = 1e-12;
  * of the pump's head are rounding (a system curve drawn through the last published point computes an ulp or two off it),
  * and the curves meet there (0): above, the pump would otherwise be said to run past its curve; below, the crossing would
  * land an ulp short of the point. The one rule of `solveOperatingPoint` and the charts' `crossingOf`.
+ * With `past`, also a crossing past the last point by no more than LIMIT_ROUNDING of its flow (limitText.ts: within it a
+ * value is at its limit, and prints as it) is a meeting there: the pump's head above the system's by no more than the
+ * system gains on it over that flow (nothing is read past the end).
  * @param pumpHead the pump's head at its curve's last flow, m (or any one head unit)
  * @param systemHead the system's head at that flow, same unit
- * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only
+ * @param past the curve's last flow (m³/s, or any unit) and `gains`, the system's slope less the curve's end slope there,
+ *   read just inside the curve (m per m³/s, or the same units)
+ * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only or meet within LIMIT_ROUNDING past
  */
-export function lastPointGap(pumpHead: number, systemHead: number): number {
+export function lastPointGap(pumpHead: number, systemHead: number, past?: { flow: number; gains: number }): number {
   requireFinite("pumpHead", pumpHead);
   requireFinite("systemHead", systemHead);
   const gap = pumpHead - systemHead;
-  return Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead) ? 0 : gap;
+  if (Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead)) return 0;
+  if (past && gap > 0 && past.gains > 0 && past.flow > 0 && gap <= past.gains * LIMIT_ROUNDING * past.flow) return 0;
+  return gap;
 }
+
+/** A meeting of the curves: a crossing, a touch (g keeps its sign on both sides), or a stretch where they coincide. */
+type Root = { x: number; xEnd?: number; fx: number; method: "brent" | "bisection"; iterations: number; kind: "cross" | "touch" | "stretch"; side: number };
 
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
@@ -158,19 +175,35 @@ function solveInner(
   // published point computes an ulp or two below it: 30.509999999999998 m against 30.51 m) is a meeting there, not a
   // pump running past its curve: within LAST_POINT_MATCH of the head the curves meet at the last point.
   const lastI = gs.length - 1;
-  gs[lastI] = lastPointGap(evalCubic(c.head, qs[lastI]) as number, systemHead(qs[lastI]));
-  const roots: { x: number; fx: number; method: "brent" | "bisection"; iterations: number }[] = [];
+  // A crossing past the last point by no more than LIMIT_ROUNDING of its flow is a meeting there too, not a pump running
+  // past its curve (lastPointGap's `past`): the system's slope less the curve's end slope, read just inside the curve.
+  const qL = qs[lastI], dq = Math.min(qL * 1e-6, qL - qs[Math.max(0, lastI - 1)]);
+  const gains = dq > 0 ? (systemHead(qL) - systemHead(qL - dq)) / dq - c.head.m[c.head.m.length - 1] : 0; // m per m³/s
+  gs[lastI] = lastPointGap(evalCubic(c.head, qL) as number, systemHead(qL), Number.isFinite(gains) ? { flow: qL, gains } : undefined);
+  // Where the curves run together, g is zero to rounding (LAST_POINT_MATCH of the pump's head) on two samples or more in a
+  // row: one stretch where they coincide (a flat stretch of the pump's curve against a system curve as flat at that head),
+  // not a crossing at every sample (before, 17 "intersections" of a "drooping curve" on a 30 m stretch against 30 m).
+  const pumpHs = qs.map((q) => evalCubic(c.head, q) as number);
+  const near = (i: number) => Math.abs(gs[i]) <= LAST_POINT_MATCH * Math.abs(pumpHs[i]);
+  const roots: Root[] = [];
   const xtol = 1e-13 * c.flowMax;
   let iterations = 0;
   for (let i = 0; i < qs.length; i++) {
-    if (gs[i] === 0) {
-      roots.push({ x: qs[i], fx: 0, method: "brent", iterations: 0 });
+    if (near(i)) {
+      let j = i;
+      while (j + 1 < qs.length && near(j + 1)) j++;
+      // One sample at equal heads to rounding: the curves meet there (a crossing, or a touch where g keeps its sign on
+      // both sides: one operating point, not the two crossings a rounding-level dip below zero gave before).
+      const side = i > 0 && j < qs.length - 1 ? Math.sign(gs[i - 1]) : 0;
+      const kind = j > i ? "stretch" : side !== 0 && side === Math.sign(gs[j + 1]) ? "touch" : "cross";
+      roots.push({ x: qs[i], ...(j > i ? { xEnd: qs[j] } : {}), fx: gs[i], method: "brent", iterations: 0, kind, side });
+      i = j;
       continue;
     }
-    if (i < qs.length - 1 && gs[i] * gs[i + 1] < 0) {
+    if (i < qs.length - 1 && !near(i + 1) && gs[i] * gs[i + 1] < 0) {
       const r = brent(g, qs[i], qs[i + 1], xtol, maxIt);
       if (r) {
-        roots.push({ x: r.x, fx: r.fx, method: r.method, iterations: r.iterations });
+        roots.push({ x: r.x, fx: r.fx, method: r.method, iterations: r.iterations, kind: "cross", side: Math.sign(gs[i]) });
         iterations += r.iterations;
       }
     }
@@ -184,12 +217,15 @@ function solveInner(
   const lastText = qtPair("head", last.pumpHead, last.systemHead).join(" against the system's ");
   // The sign of g just past each crossing: below zero, the pump's head falls under the system's there (stable: more flow
   // brings less head than the system needs); above zero, it rises above it again (unstable: the flow runs on).
-  const afterSign = roots.map((r) => { // the first sample past the root that is not itself zero
-    let j = qs.findIndex((q) => q > r.x);
-    while (j >= 0 && j < gs.length && gs[j] === 0) j++;
+  const afterSign = roots.map((r) => { // the first sample past the root (a stretch's end) not itself at equal heads
+    let j = qs.findIndex((q) => q > (r.xEnd ?? r.x));
+    while (j >= 0 && j < gs.length && near(j)) j++;
     return j < 0 || j >= gs.length ? 0 : Math.sign(gs[j]);
   });
-  const listText = (idx: number[]) => idx.map((i) => `${qt("flow", points[i].flow)} (${qt("head", points[i].head)})`).join(", ");
+  const listText = (idx: number[]) => idx.map((i) => {
+    const r = roots[i], at = `${qt("flow", points[i].flow)} (${qt("head", points[i].head)})`;
+    return r.xEnd !== undefined ? `the stretch from ${at} to ${qt("flow", r.xEnd)} where they coincide` : r.kind === "touch" ? `${at}, where they touch` : at;
+  }).join(", ");
   // Where a pump flowing past an unstable crossing ends: the next stable crossing above it, or past the curve's end.
   const runsOnTo = (i: number) => {
     const k = roots.findIndex((r, j) => j > i && afterSign[j] < 0);
@@ -199,10 +235,13 @@ function solveInner(
     `${which} is unstable: the pump's head rises above the system's again past it, so a pump pushed past it runs on ${runsOnTo(i)}`;
   // Common practice (from memory): a pump starts against a closed check valve from rest, so its head at zero flow (the
   // shut-off head) must exceed the system's head there; below it the valve never opens, whatever crossings lie further out.
-  const fromRest = crossingFromRest(gs[0], afterSign);
+  // A stretch where the curves coincide, and a touch from above (the pump's head above the system's on both sides), are
+  // where a pump flowing up to them stops: its head no longer exceeds the system's there (0 for crossingFromRest).
+  const stopsAt = roots.map((r, i) => (r.kind === "stretch" || (r.kind === "touch" && r.side > 0) ? 0 : afterSign[i]));
+  const fromRest = crossingFromRest(roots.length && roots[0].x === qs[0] ? 0 : gs[0], stopsAt);
   if (fromRest === "cannot-start") {
     const all = roots.map((_, i) => i);
-    const unreached = `the curves cross at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
+    const unreached = `the curves ${roots.every((r) => r.kind === "cross") ? "cross" : "meet"} at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
     const crossings = `; ${unreached}`;
     return { status: "no-intersection-shutoff-below-static", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings, ...(roots.length ? { unreached } : {}),
@@ -216,11 +255,23 @@ function solveInner(
   if (fromRest === "beyond-curve-end") {
     return { status: "beyond-curve-end", flow: null, head: null, points, method: null, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `At the last curve point the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve` };
+      message: `At the curve's last published point, ${qt("flow", last.flow)}, the pump still gives ${qtPair("head", last.pumpHead, last.systemHead).join(" against ")}: it would run out past the end of its published curve (the curves meet further out, where it has no data)` };
   }
   const chosenAt = fromRest; // a sign of 0 past it: nothing sampled past it (the curve's last point)
   const chosen = roots[chosenAt];
   const op = points[chosenAt];
+  // Curves that coincide over a stretch (common practice, from memory): no single operating point; the pump may run at
+  // any flow on the stretch and drifts along it. Said with the stretch's flows and head; no flow or head reported.
+  if (chosen.xEnd !== undefined) {
+    const stretch = { flowFrom: chosen.x, flowTo: chosen.xEnd, head: op.head };
+    return { status: "coincident", flow: null, head: null, points, method: null, iterations, atFirstPoint: first, atLastPoint: last,
+      warnings, stretch,
+      message: `The pump and system curves coincide from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)}: the operating point is undefined — the pump may run at any flow on that stretch and drifts along it; change the system or the pump so the curves cross` };
+  }
+  if (chosen.kind === "touch") {
+    warnings.push({ code: "touching-curves",
+      message: `the pump and system curves touch at ${qt("flow", op.flow)} (${qt("head", op.head)}) without crossing: one operating point, but a marginal one — a system head slightly lower and they part, the flow running on ${runsOnTo(chosenAt)}; slightly higher and they cross twice near it` });
+  }
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re
   // to the turbulent correlation at Re 2000, see headLoss.ts), and the pump's head lies inside the step. The
   // curves never meet; the flow there is unsettled. Said with the numbers, the point kept (the best estimate).
@@ -239,12 +290,12 @@ function solveInner(
     warnings.push({ code: "dead-head",
       message: `no flow: the pump's shut-off head ${qt("head", op.head)} only balances the system's ${qt("head", systemHead(0))} at zero flow, so it runs against the closed check valve (dead-head), churning and heating the liquid; a pump must not run below its minimum continuous flow (the maker's figure)` });
   }
-  const unstable = roots.map((_, i) => i).filter((i) => i > chosenAt && afterSign[i] > 0);
+  const unstable = roots.map((_, i) => i).filter((i) => i > chosenAt && roots[i].kind === "cross" && afterSign[i] > 0);
   for (const i of unstable) warnings.push({ code: "unstable-crossing", message: unstableText(i) });
   if (points.length > 1) {
     return { status: "multiple", flow: op.flow, head: op.head, points, method: chosen.method, iterations,
       atFirstPoint: first, atLastPoint: last, warnings,
-      message: `${points.length} intersections (drooping curve): from rest the pump settles at the first where its head falls below the system's, ${listText([chosenAt])}, reported${unstable.length ? `; ${unstableText(unstable[0])}` : "; operation may be unstable"}` };
+      message: `${points.length} intersections (drooping curve): from rest the pump settles at the first where its head ${chosen.kind === "touch" ? "no longer exceeds" : "falls below"} the system's, ${listText([chosenAt])}, reported${unstable.length ? `; ${unstableText(unstable[0])}` : "; operation may be unstable"}` };
   }
   return { status: "ok", flow: op.flow, head: op.head, points, method: chosen.method, iterations,
     atFirstPoint: first, atLastPoint: last, warnings,
@@ -262,8 +313,7 @@ export function operatingPointInSystem(
   system: SystemSpec | PreparedSystem,
   which: SystemCase = {},
 ): OperatingPointResult {
-  const sys = "fixedHead" in system && "static" in system ? system : prepareSystem(system as SystemSpec);
-  return solveOperatingPoint(curve, systemHeadFunction(sys, which));
+  return solveOperatingPoint(curve, systemHeadFunction(system, which));
 }
 
 /** A simple system for {@link operatingPoint}: static head plus pipe segments in series, water. */

@@ -266,7 +266,10 @@ function bepUnknownText(known: readonly BestEfficiencyPoint[], best: number, flo
 }
 
 function asCurve(c: PumpCurve | PumpCurveInput): PumpCurve {
-  return "head" in c && (c as PumpCurve).head && "x" in (c as PumpCurve).head ? (c as PumpCurve) : createPumpCurve(c as PumpCurveInput);
+  // Anything but an object is no curve: createPumpCurve refuses it by name ("curve: is required"), where `in` threw a TypeError.
+  if (!c || typeof c !== "object") return createPumpCurve(c);
+  const h = (c as PumpCurve).head;
+  return "head" in c && h && typeof h === "object" && "x" in h ? (c as PumpCurve) : createPumpCurve(c as PumpCurveInput);
 }
 
 /**

@@ -174,8 +174,9 @@ function checkCase(which: SystemCase | undefined): { level: "min" | "max" | "nom
   return { level, aged: roughness === "aged" };
 }
 
+/** A prepared system as is, anything else through prepareSystem (which refuses what is no object: "system: is required"). */
 function asPrepared(system: SystemSpec | PreparedSystem): PreparedSystem {
-  return "fixedHead" in system && "static" in system ? system : prepareSystem(system as SystemSpec);
+  return system && typeof system === "object" && "fixedHead" in system && "static" in system ? system : prepareSystem(system as SystemSpec);
 }
 
 /** Loss of a list of runs at one flow. */

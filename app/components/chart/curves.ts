@@ -118,7 +118,12 @@ export function crossingOf(pump: readonly Pt[] | undefined | null, system: reado
   // At the pump curve's last point, the engine's last-point rule: heads apart by rounding only meet there (a system curve
   // drawn through the last published point computes an ulp or two off it; before, no crossing or one an ulp short).
   const last = flows.length - 1;
-  if (hi === p[p.length - 1].flow) gs[last] = lastPointGap(p[p.length - 1].y, interpolateAt(s, hi) as number);
+  // With it, a crossing past the last point by no more than LIMIT_ROUNDING of its flow, judged on the last sampled slopes.
+  if (hi === p[p.length - 1].flow) {
+    const pl = p[p.length - 1], pb = p[p.length - 2], prev = flows[last - 1];
+    const gains = ((interpolateAt(s, hi) as number) - (interpolateAt(s, prev) as number)) / (hi - prev) - (pl.y - pb.y) / (pl.flow - pb.flow);
+    gs[last] = lastPointGap(pl.y, interpolateAt(s, hi) as number, Number.isFinite(gains) ? { flow: hi, gains } : undefined);
+  }
   const crossings: Pt[] = [];
   for (let i = 0; i < flows.length; i++) {
     if (gs[i] === 0) crossings.push({ flow: flows[i], y: interpolateAt(p, flows[i]) as number });

@@ -231,13 +231,14 @@ export function calcSystemCurve(body: unknown): CalcOutcome<SystemCurveResponse>
   }, ctx);
 }
 
-export type ApiOperatingStatus = "ok" | "no_intersection" | "beyond_curve" | "multiple";
+export type ApiOperatingStatus = "ok" | "no_intersection" | "beyond_curve" | "multiple" | "coincident";
 
 export const STATUS_MAP: Record<OperatingStatus, ApiOperatingStatus> = {
   ok: "ok",
   multiple: "multiple",
   "no-intersection-shutoff-below-static": "no_intersection",
   "beyond-curve-end": "beyond_curve",
+  coincident: "coincident",
 };
 
 export type OperatingPointResponse = Answer<{
