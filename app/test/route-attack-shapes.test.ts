@@ -14,8 +14,8 @@ import { allowedMethods } from "~/lib/shared/methods";
 import { BASE, makeMember, type TestMember } from "./harness";
 import { asResponse, GOOD_PARAMS, isApi, load, paramsOf, pathFor, ROUTES, send, throughRoot, walkRecords, wrongAnswer, type Answer, type WalkRecords, type Who } from "./route-table";
 
-/** Ids the other sweeps do not send: 2^63 (one past BIGINT), 2^64, 30 digits, NUL inside, dot segments, other digits. */
-const ODD_IDS = ["9223372036854775808", "18446744073709551616", "1" + "0".repeat(29), "9".repeat(30), "1%00", "%2e%2e", "%2E", "1%2F..", "..", "%D9%A1", "%EF%BC%91", "1%20", "%201", "1%09", "+0", "1_000", "0b1", "1n", "1.", ".1", "1e0"];
+/** Ids the other sweeps do not send: 2^63 (one past BIGINT), 30 digits, NUL inside, dot segments, other scripts' digits. */
+const ODD_IDS = ["9223372036854775808", "1" + "0".repeat(29), "1%00", "%2e%2e", "1%2F..", "..", "%D9%A1", "%EF%BC%91", "1%20", "%201", "1_000", "0b1", "1."];
 const NEVER = "999999999999999";
 
 let owner: WalkRecords;
@@ -84,7 +84,7 @@ function keysOf(file: string): string[] {
   return [...keys];
 }
 /** Values no number field should take, and some it reads strictly (hex, exponents, other digits). */
-const ODD_NUMBERS = ["NaN", "Infinity", "-Infinity", "-0", "1e309", "-1e309", "1e-400", "0x10", "1e3", "%D9%A1", "1.0", "", "9".repeat(30), "%00"];
+const ODD_NUMBERS = ["NaN", "Infinity", "-Infinity", "-0", "1e309", "1e-400", "0x10", "%D9%A1", "9".repeat(30), "%00"];
 
 const reads = async () => {
   const out: { r: (typeof ROUTES)[number]; keys: string[]; params: Record<string, string> }[] = [];
