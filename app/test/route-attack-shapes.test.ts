@@ -99,6 +99,12 @@ const reads = async () => {
   return out;
 };
 
+/**
+ * The keys asked together: an API read's one at a time (its 400 for one key would hide another's answer); a page's all at
+ * once (each of its query fields falls back alone, `QueryText`/`QueryId`/`QueryFlag`, so none hides another).
+ */
+const groupsOf = (keys: string[], api: boolean) => (api ? keys.map((k) => [k]) : [keys]);
+
 /** An API read answers what it can take (200) or a 400 problem+json; a page answers or refuses, never a 5xx or a stack. */
 function wrongRead(a: Answer, api: boolean): string | null {
   const w = wrongAnswer(a, { api, refusal: false }); // the owner's own reads: their data is theirs
@@ -107,14 +113,14 @@ function wrongRead(a: Answer, api: boolean): string | null {
   return null;
 }
 
-test("NaN, Infinity, -0, 1e309, hex, other digits in every query parameter each route reads, one at a time, as the owner: an answer or a 400, never a 5xx", async () => {
+test("NaN, Infinity, -0, 1e309, hex, other digits in every query parameter each route reads, as the owner (an API read's one at a time): an answer or a 400, never a 5xx", async () => {
   const fails: string[] = [];
   let sent = 0;
   for (const { r, keys, params } of await reads()) {
     const api = isApi(r.path);
-    for (const key of keys) {
+    for (const group of groupsOf(keys, api)) {
       for (const odd of ODD_NUMBERS) {
-        const path = `${pathFor(r.path, params)}?${key}=${odd.startsWith("%") ? odd : encodeURIComponent(odd)}`;
+        const path = `${pathFor(r.path, params)}?${group.map((key) => `${key}=${odd.startsWith("%") ? odd : encodeURIComponent(odd)}`).join("&")}`;
         const a = await send(r, ownerAs(api), { params, path });
         sent++;
         const wrong = wrongRead(a, api);
@@ -123,7 +129,7 @@ test("NaN, Infinity, -0, 1e309, hex, other digits in every query parameter each 
     }
   }
   report("odd numbers in queries", sent, fails);
-  expect(sent).toBeGreaterThan(500);
+  expect(sent).toBeGreaterThan(200);
   expect(fails).toEqual([]);
 }, 300_000);
 
@@ -134,13 +140,14 @@ test("each query parameter as an array (k[]=1, k[0]=1), twice with two values, a
   for (const { r, keys, params } of await reads()) {
     const api = isApi(r.path);
     const base = pathFor(r.path, params);
-    for (const key of keys) {
+    for (const group of groupsOf(keys, api)) {
+      const each = (f: (key: string) => string) => group.map(f).join("&");
       const asks: { q: string; names?: string }[] = [
-        { q: `${key}%5B%5D=1`, names: `${key}[]` },
-        { q: `${key}%5B0%5D=1&${key}%5B1%5D=2`, names: `${key}[0]` },
-        { q: `${key}=1&${key}=2` },
-        { q: `${key}=${long}` },
-        { q: `${key}=${long}&${key}=${long}` },
+        { q: each((key) => `${key}%5B%5D=1`), names: `${group[0]}[]` },
+        { q: each((key) => `${key}%5B0%5D=1&${key}%5B1%5D=2`), names: `${group[0]}[0]` },
+        { q: each((key) => `${key}=1&${key}=2`) },
+        { q: each((key) => `${key}=${long}`) },
+        { q: each((key) => `${key}=${long}&${key}=${long}`) },
       ];
       for (const { q, names } of asks) {
         const a = await send(r, ownerAs(api), { params, path: `${base}?${q}` });
@@ -159,7 +166,7 @@ test("each query parameter as an array (k[]=1, k[0]=1), twice with two values, a
     else if (api && a.status !== 400) fails.push(`GET ${base}?(every key 100 KB, one unknown) → ${a.status}, not 400`);
   }
   report("arrays, repeats and long queries", sent, fails);
-  expect(sent).toBeGreaterThan(200);
+  expect(sent).toBeGreaterThan(100);
   expect(fails).toEqual([]);
 }, 300_000);
 
