@@ -233,6 +233,15 @@ test("form actions: JSON of odd shapes (a BOM, 10 000 deep) refused with a 4xx; 
       { name: `a form ${DEEP} brackets deep`, body: `intent${"[a]".repeat(DEEP)}=delete&pageWorkspaceId=${ws}`, headers: { "content-type": "application/x-www-form-urlencoded" }, refuse: needsIntent },
       { name: "every field twice and no intent", body: twice, headers: { "content-type": "application/x-www-form-urlencoded" }, refuse: needsIntent },
     ];
+    // a form field that carries JSON (the mapping page's `base`, the upload API's `mapping`), with each intent the module names
+    const intents = [...new Set([...src.matchAll(/intent"\) === "([\w-]+)"|intent === "([\w-]+)"|case "([\w-]+)"/g)].map((m) => m[1] ?? m[2] ?? m[3]))];
+    for (const f of fields.filter((x) => /JSON\.parse\(String\(form\.get\("/.test(src) && ["base", "mapping"].includes(x))) {
+      for (const intent of ["check", ...intents]) {
+        for (const raw of [deepObject, deepArray, "\uFEFF{}", '{"columns":[{"index":1e309}]}']) {
+          asks.push({ name: `${f} = ${raw.slice(0, 12)}…, intent ${intent}`, body: new URLSearchParams({ intent, [f]: raw, pageWorkspaceId: ws }), headers: { "content-type": "application/x-www-form-urlencoded" }, refuse: false });
+        }
+      }
+    }
     for (const b of asks) {
       // a session of its own for each body (a sign-out ends only it), in the workspace the page showed
       await db().update(users).set({ currentWorkspaceId: owner.m.workspaceId }).where(eq(users.id, owner.m.userId));
