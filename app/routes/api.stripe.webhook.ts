@@ -7,7 +7,13 @@ import { problem, refuseMethod } from "~/lib/shared/problem.server";
 // The body is read raw, exactly as signed; the middleware caps it at 512 KB.
 export async function action({ request }: Route.ActionArgs) {
   if (request.method !== "POST") return loader();
-  const raw = await request.text();
+  let raw: string;
+  try {
+    raw = await request.text();
+  } catch {
+    // cut by app/serve.mjs past the 512 KB limit, which has answered 413 already: nothing of it is read
+    return problem({ title: "Bad Request", status: 400, detail: "The body could not be read to its end." });
+  }
   const out = await handleStripeWebhook(raw, request.headers.get("stripe-signature"));
   if (out.problem) return problem(out.body as { title: string; status: number });
   return Response.json(out.body, { status: out.status, headers: { "Cache-Control": "no-store" } });

@@ -4,7 +4,7 @@ import { requireApi } from "~/lib/auth/guards.server";
 import { viewerOfApi } from "~/lib/auth/viewer.server";
 import { systemPreviewView } from "~/lib/projects";
 import { badRequest, methodNotAllowed, notFound, notJsonBody, refuseMethod } from "~/lib/shared/problem.server";
-import { IdField } from "~/lib/shared/forms.server";
+import { IdField, readJsonBody } from "~/lib/shared/forms.server";
 import { renderDeep, renderUnits } from "~/lib/shared/units";
 
 // POST /api/v1/systems/:id/preview { input } — the system and its candidates evaluated with
@@ -19,14 +19,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!id.success) return badRequest("System id must be a number.");
   const notJson = notJsonBody(request);
   if (notJson) return notJson;
-  let body: unknown;
+  const body = await readJsonBody(request);
+  if (!body.ok) return badRequest(`The body must be JSON: { input: {…} }; ${body.problem}.`);
   try {
-    body = await request.json();
-  } catch {
-    return badRequest("The body must be JSON: { input: {…} }.");
-  }
-  try {
-    const out = await systemPreviewView(viewerOfApi(c), id.output, body);
+    const out = await systemPreviewView(viewerOfApi(c), id.output, body.value);
     if (!out.ok) {
       const more = out.count > out.errors.length ? `: ${out.count} problems, the first ${out.errors.length} listed` : "";
       return badRequest(`The system inputs are not valid${more}.`, { errors: out.errors.map((e) => ({ ...e, message: renderUnits(e.message, c.units) })) });

@@ -39,7 +39,13 @@ async function readJson(request: Request, limit: number, headers: Headers): Prom
   if (request.body) {
     const reader = request.body.getReader();
     for (;;) {
-      const { done, value } = await reader.read();
+      let next: ReadableStreamReadResult<Uint8Array>;
+      try {
+        next = await reader.read();
+      } catch {
+        return bad("could not be read to its end"); // cut by app/serve.mjs past its limit, which has answered 413
+      }
+      const { done, value } = next;
       if (done) break;
       size += value.byteLength;
       if (size > limit) {

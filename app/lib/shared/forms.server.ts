@@ -85,8 +85,17 @@ export async function readFormSafe(request: Request): Promise<FormData> {
  * A multipart body (RFC 7578): its text fields and every part's headers must be UTF-8 (the lenient reading stored U+FFFD
  * in their place); a file part's content is the file's own bytes, read by whoever takes the file.
  */
+/** A body whose bytes could not be read to the end (app/serve.mjs cut it past its limit and answered 413): nothing of it is used. */
+const UNREADABLE = "The form could not be read to its end: send it again from the page.";
+
 async function readMultipart(request: Request, contentType: string): Promise<FormData> {
-  const body = checkedMultipart(await request.arrayBuffer(), contentType);
+  let buffer: ArrayBuffer;
+  try {
+    buffer = await request.arrayBuffer();
+  } catch {
+    throw data({ errors: { _form: UNREADABLE } }, { status: 400 });
+  }
+  const body = checkedMultipart(buffer, contentType);
   try {
     return await body.formData();
   } catch {
@@ -159,12 +168,30 @@ async function readUrlencoded(request: Request): Promise<FormData> {
   return form;
 }
 
-/** The request body as JSON; a malformed body is a 400. */
-export async function readJsonSafe(request: Request): Promise<unknown> {
+/**
+ * The request body as JSON, read strictly: bytes that are not UTF-8 are refused (`request.json()` would put U+FFFD in
+ * their place, text nobody sent), as is an empty body or one that is not one JSON text. One byte-order mark before it is
+ * taken (RFC 8259 §8.1: a parser MAY ignore it), as the calculators take it; a second is not JSON. `problem`: why not,
+ * for the route's refusal.
+ */
+export async function readJsonBody(request: Request): Promise<{ ok: true; value: unknown } | { ok: false; problem: string }> {
+  let bytes: ArrayBuffer;
   try {
-    return await request.json();
+    bytes = await request.arrayBuffer();
   } catch {
-    throw data("The body must be JSON.", { status: 400 });
+    return { ok: false, problem: "the body could not be read to its end" }; // cut by app/serve.mjs past its limit (413 sent)
+  }
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    return { ok: false, problem: "the body is not valid UTF-8" };
+  }
+  if (text.trim() === "") return { ok: false, problem: "the body is empty" };
+  try {
+    return { ok: true, value: JSON.parse(text) };
+  } catch (e) {
+    return { ok: false, problem: `the body is not valid JSON (${(e as Error).message.slice(0, 120)})` };
   }
 }
 
