@@ -15,6 +15,7 @@ import { allowedMethods } from "~/lib/shared/methods";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { BASE, makeMember } from "./harness";
 import { GOOD_PARAMS, isApi, load, ROUTES, send, walkRecords, wrongAnswer, type Answer, type Mod, type WalkRecords, type Who } from "./route-table";
+import { multipart } from "./wire-bodies";
 
 let owner: WalkRecords;
 beforeAll(async () => {
@@ -58,19 +59,6 @@ const BODIES: Body[] = [
   { name: "XML", refuse: true, headers: { "content-type": "application/xml" }, body: () => "<intent>delete</intent>" },
   { name: "a form as text/plain", refuse: true, headers: { "content-type": "text/plain" }, body: (f, ws) => urlencoded(each(f, "1", ws)) },
 ];
-
-function multipart(parts: [string, Uint8Array][]): Uint8Array<ArrayBuffer> {
-  const enc = new TextEncoder();
-  const chunks = parts.flatMap(([k, v]) => [enc.encode(`--QQ\r\nContent-Disposition: form-data; name="${k}"\r\n\r\n`), v, enc.encode("\r\n")]);
-  chunks.push(enc.encode("--QQ--\r\n"));
-  const out = new Uint8Array(chunks.reduce((n, c) => n + c.byteLength, 0));
-  let at = 0;
-  for (const c of chunks) {
-    out.set(c, at);
-    at += c.byteLength;
-  }
-  return out;
-}
 
 /** Whether a route takes POST: outside /api/ by the method table, under it by an action that is not `refuseMethod("GET")`. */
 const takesPost = (r: { path: string; file: string }, mod: Mod) =>

@@ -18,6 +18,7 @@ import { CALC_ENDPOINT_DOCS } from "~/lib/calc-api/examples";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { BASE, makeMember } from "./harness";
 import { GOOD_PARAMS, isApi, load, ROUTES, send, walkRecords, wrongAnswer, type Answer, type WalkRecords, type Who } from "./route-table";
+import { multipart } from "./wire-bodies";
 
 let owner: WalkRecords;
 beforeAll(async () => {
@@ -170,19 +171,6 @@ test("odd values in each field of a good body on every JSON API: never a 5xx or 
   expect(sent).toBeGreaterThan(200);
   expect(fails).toEqual([]);
 }, 300_000);
-
-function multipart(parts: [string, string | Uint8Array, string?][]): Uint8Array<ArrayBuffer> {
-  const enc = new TextEncoder();
-  const chunks = parts.flatMap(([k, v, file]) => [enc.encode(`--QQ\r\nContent-Disposition: form-data; name="${k}"${file ? `; filename="${file}"\r\nContent-Type: text/csv` : ""}\r\n\r\n`), typeof v === "string" ? enc.encode(v) : v, enc.encode("\r\n")]);
-  chunks.push(enc.encode("--QQ--\r\n"));
-  const out = new Uint8Array(chunks.reduce((n, c) => n + c.byteLength, 0));
-  let at = 0;
-  for (const c of chunks) {
-    out.set(c, at);
-    at += c.byteLength;
-  }
-  return out;
-}
 
 test("the upload API's mapping field as JSON of odd shapes (deep, a BOM, past a double, not an object): 400 or 422 problem+json naming the mapping, never a 5xx", async () => {
   const r = ROUTES.find((x) => x.path === "api/v1/libraries/:id/upload")!;

@@ -19,6 +19,7 @@ import { CALC_ENDPOINT_DOCS } from "~/lib/calc-api/examples";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import { BASE, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
 import { GOOD_PARAMS, isApi, pathFor, ROUTES, walkRecords, type WalkRecords } from "./route-table";
+import { chunkedPost, type WireAnswer } from "./wire-bodies";
 
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
 let app: BuiltApp | null = null;
@@ -34,34 +35,11 @@ afterAll(() => {
   return closeDb();
 });
 
-type Answer = { status: number; type: string; body: string; sent: number };
+type Answer = WireAnswer;
 
-/** Sends `total` bytes of `fill` in 64 KB chunks with no Content-Length, stopping at the first answer. */
-function chunked(pathname: string, total: number, headers: Record<string, string>): Promise<Answer> {
-  return new Promise((resolve, reject) => {
-    let sent = 0;
-    let answered = false;
-    const req = http.request({ host: "127.0.0.1", port: app!.port, path: pathname, method: "POST", agent: false, headers: { origin: app!.base, ...headers } }, (res) => {
-      answered = true;
-      let body = "";
-      res.on("data", (b) => (body += b));
-      const done = () => resolve({ status: res.statusCode ?? 0, type: String(res.headers["content-type"] ?? ""), body: body || String(res.headers.location ?? ""), sent });
-      res.on("end", done);
-      res.on("error", done);
-    });
-    req.on("error", (e) => (answered ? undefined : reject(Object.assign(e, { sent }))));
-    const chunk = Buffer.alloc(64 * 1024, "1");
-    const pump = () => {
-      while (!answered && sent < total) {
-        const piece = chunk.subarray(0, Math.min(chunk.length, total - sent));
-        sent += piece.length;
-        if (!req.write(piece)) return void req.once("drain", pump);
-      }
-      if (!answered) req.end();
-    };
-    pump();
-  });
-}
+/** Sends `total` bytes in 64 KB chunks with no Content-Length, stopping at the first answer. */
+const chunked = (pathname: string, total: number, headers: Record<string, string>): Promise<Answer> =>
+  chunkedPost(app!.port, pathname, total, { origin: app!.base, ...headers });
 
 /** What is wrong with a refusal on the wire (null: nothing): not a 4xx, or not in its side's shape. */
 function wrongOnWire(a: Answer, api: boolean): string | null {

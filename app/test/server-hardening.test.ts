@@ -12,6 +12,7 @@ import { closeDb, db } from "@db/client.server";
 import { libraries } from "@db/schema";
 import { createLibrary } from "~/lib/libraries";
 import { freePort, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
+import { chunkedPost } from "./wire-bodies";
 
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
 
@@ -41,30 +42,9 @@ afterAll(() => {
 
 /** Sends `total` bytes in 64 KB chunks (Transfer-Encoding: chunked unless `declare`), stopping at the first answer. */
 function send(pathname: string, total: number, opts: { declare?: boolean; headers?: Record<string, string> } = {}) {
-  return new Promise<{ status: number; body: string; sent: number; type: string | undefined }>((resolve, reject) => {
-    let sent = 0;
-    let answered = false;
-    const headers: Record<string, string> = { "content-type": "application/x-www-form-urlencoded", origin: base, ...opts.headers };
-    if (opts.declare) headers["content-length"] = String(total);
-    const req = http.request({ host: "127.0.0.1", port, path: pathname, method: "POST", headers }, (res) => {
-      answered = true;
-      let body = "";
-      res.on("data", (b) => (body += b));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, body, sent, type: res.headers["content-type"] }));
-      res.on("error", () => resolve({ status: res.statusCode ?? 0, body, sent, type: res.headers["content-type"] }));
-    });
-    req.on("error", (e) => (answered ? undefined : reject(e)));
-    const chunk = Buffer.alloc(64 * 1024, "a");
-    const pump = () => {
-      while (!answered && sent < total) {
-        const piece = chunk.subarray(0, Math.min(chunk.length, total - sent));
-        sent += piece.length;
-        if (!req.write(piece)) return void req.once("drain", pump);
-      }
-      if (!answered) req.end();
-    };
-    pump();
-  });
+  const headers: Record<string, string> = { "content-type": "application/x-www-form-urlencoded", origin: base, ...opts.headers };
+  if (opts.declare) headers["content-length"] = String(total);
+  return chunkedPost(port, pathname, total, headers, "a");
 }
 
 describe.skipIf(!built)("headers", () => {
