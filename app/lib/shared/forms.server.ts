@@ -81,13 +81,13 @@ export async function readFormSafe(request: Request): Promise<FormData> {
   }
 }
 
+/** A body whose bytes could not be read to the end (app/serve.mjs cut it past its limit and answered 413): nothing of it is used. */
+const UNREADABLE = "The form could not be read to its end: send it again from the page.";
+
 /**
  * A multipart body (RFC 7578): its text fields and every part's headers must be UTF-8 (the lenient reading stored U+FFFD
  * in their place); a file part's content is the file's own bytes, read by whoever takes the file.
  */
-/** A body whose bytes could not be read to the end (app/serve.mjs cut it past its limit and answered 413): nothing of it is used. */
-const UNREADABLE = "The form could not be read to its end: send it again from the page.";
-
 async function readMultipart(request: Request, contentType: string): Promise<FormData> {
   let buffer: ArrayBuffer;
   try {
