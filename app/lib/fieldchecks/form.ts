@@ -4,7 +4,7 @@
 import { fluidTemperatureRangeC, fromSI, STANDARD_ATMOSPHERE, toSI, unitLabel, type Quantity, type ToleranceGrade } from "~/engine";
 import { boundInward, fmtPctLimit } from "~/engine/quantityText";
 import { decimalField, MAX_MAGNITUDE } from "../shared/decimal";
-import { groupThousands } from "../shared/format";
+import { groupThousands, numberAsTyped } from "../shared/format";
 import type { UnitChoice } from "../shared/units";
 
 export type GaugeRef = "gauge" | "absolute";
@@ -231,7 +231,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
     }
     // The number refused, in the unit typed, as the system editor's refusals name it (projects/run-ranges.ts `outOfRange`):
     // ", not −350 kPa". Written in full (never rounded onto the end it is past), grouped as the ends are.
-    const not = `, not ${sentText(x)}${w}`;
+    const not = `, not ${numberAsTyped(x)}${w}`;
     // Far past every bound below (and past a double once in SI, as 1e308 kPa would be): refused before converting.
     if (!(Math.abs(x) <= MAX_MAGNITUDE)) {
       errors[key] = `${capital(label)} is too ${x < 0 ? "low" : "high"}${takes}${not}; check the value and its unit.`;
@@ -312,7 +312,7 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
   if (temperatureC !== null && (temperatureC < tLimits.min || temperatureC > tLimits.max)) {
     // The number as typed (read again: −4 °F through °C and back is −3.9999999999999964), in the unit typed.
     const typed = decimalField(f.temperature ?? "", "temperature", "", {}) ?? fromSI("temperature", tUnit, temperatureC);
-    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)}, not ${sentText(typed)} ${unitLabel("temperature", tUnit)} — ${tLimits.rule}.`;
+    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)}, not ${numberAsTyped(typed)} ${unitLabel("temperature", tUnit)} — ${tLimits.rule}.`;
     temperatureC = null;
   }
   const notes = f.notes ?? "";
@@ -341,15 +341,6 @@ function powerAccuracyOf(typed: string, errors: Record<string, string>): number 
   if (pct >= 0 && pct <= POWER_ACCURACY_MAX_PCT) return pct / 100;
   errors.powerAccuracy = `The power reading accuracy must be ${range}: “${typed}” is ${pct < 0 ? "negative" : `past ${POWER_ACCURACY_MAX_PCT} %`}.`;
   return null;
-}
-
-/**
- * A number as it was sent, for a refusal: every digit of it (the shortest text that reads back as it, never rounded onto
- * an end it is past), its whole part grouped by narrow no-break spaces as the ends are, a minus sign: "−101.326", "350 000".
- * @param x the number read from the field, in the unit typed
- */
-function sentText(x: number): string {
-  return groupThousands(String(x)).replace("-", "−");
 }
 
 function capital(s: string) {

@@ -4,7 +4,7 @@
 import { PIPE_TABLES, type Quantity } from "~/engine";
 import { fmtNumExact, LIMIT_ROUNDING, qtBound, qtSent } from "~/engine/quantityText";
 import { MAX_MAGNITUDE } from "../shared/decimal";
-import { groupThousands } from "../shared/format";
+import { groupThousands, numberAsTyped } from "../shared/format";
 
 /** A number's range: its field's label, quantity (null: a plain number), ends in SI, and why an end is where it is. */
 export type NumberRange = { label: string; q: Quantity | null; min: number; max: number; why?: string };
@@ -39,8 +39,6 @@ export const EXTRA_K_RANGE: NumberRange = { label: "Extra ΣK", q: null, min: 0,
  */
 export const boreTaken = (d: number) => d >= MIN_BORE * (1 - SHOWN_PRECISION) && d <= MAX_BORE;
 
-const plain = (x: number) => groupThousands(String(x).replace("-", "−"));
-
 /**
  * Whether `x` (SI) is inside `r`, to 1 part in 10⁸ of the end (engine quantityText.ts `LIMIT_ROUNDING`): an end typed as the
  * refusal shows it in another unit comes back a hair outside after the conversion (0.036 m³/h is 9.999999999999999e-6
@@ -57,7 +55,7 @@ export const inside = (r: NumberRange, x: number) => x >= r.min - LIMIT_ROUNDING
 export function rangeText(r: NumberRange, value?: number | null): string {
   const against = value != null && Number.isFinite(value) && Math.abs(value) <= MAX_MAGNITUDE ? [value] : [];
   // Zero needs no unit ("from 0 to 50 mm"), but 0 °C does: it is 32 °F.
-  const end = (x: number, side: "min" | "max") => (r.q && (x !== 0 || r.q === "temperature") ? qtBound(r.q, x, against, side) : plain(x));
+  const end = (x: number, side: "min" | "max") => (r.q && (x !== 0 || r.q === "temperature") ? qtBound(r.q, x, against, side) : numberAsTyped(x));
   return `from ${end(r.min, "min")} to ${end(r.max, "max")}${r.why ? ` (${r.why})` : ""}`;
 }
 

@@ -11,6 +11,17 @@ export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText"
 
 /** A whole number with thousands separators, e.g. 12345 → "12,345" (the engine's, so a range's end in a refusal groups the same: `groupThousands`). */
 export { fmtInt, groupThousands } from "~/engine/quantityText";
+import { groupThousands } from "~/engine/quantityText";
+
+/**
+ * A number as it was typed, for a refusal or a range's end: every digit of it (the shortest text that reads back as it,
+ * never rounded onto an end it is past), its whole part grouped by narrow no-break spaces (`groupThousands`) and the true
+ * minus sign: "−101.326", "350 000". The system editor's run ranges and the field check's form refusals.
+ * @param x the number (unitless, in the unit typed)
+ */
+export function numberAsTyped(x: number): string {
+  return groupThousands(String(x).replace("-", "−"));
+}
 
 /** An amount in Stripe's minor unit of its currency (money.ts: 0, 2 or 3 decimals), e.g. 4900, "eur" → "49.00 EUR"; 4900, "jpy" → "4,900 JPY". */
 export { fmtMoney } from "./money";
