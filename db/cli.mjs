@@ -8,13 +8,18 @@ import { spawn, spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, openSync, closeSync, rmSync } from "node:fs";
 import { randomBytes } from "node:crypto";
 import path from "node:path";
-import { ROOT, DATA_ROOT, startLocalServer, createDatabase, dropDatabase, localServerPaths, ensureDebianPackages, freePort, portFree } from "./mariadb.mjs";
+import { ROOT, DATA_ROOT, startLocalServer, createDatabase, dropDatabase, localServerPaths, ensureDebianPackages, portFree } from "./mariadb.mjs";
+import { servicePorts } from "./port-book.mjs";
 
 const log = (msg) => process.stderr.write(`[dutymark] ${msg}\n`);
 const cmd = process.argv[2] ?? "start";
 const children = new Set();
 const cleanups = [];
 let stopping = false;
+// Every port this command gives a process it starts comes from this one book (db/port-book.mjs): none handed out twice,
+// each held until its process is about to start (startService lets go of the ports taken under its label).
+const ports = servicePorts();
+cleanups.push(() => ports.releaseAll());
 
 function npmBin(name) {
   return path.join(ROOT, "node_modules", ".bin", name);
@@ -73,8 +78,9 @@ async function mustRun(label, bin, args, env) {
   if (code !== 0) throw new Error(`${label} failed (exit ${code})`);
 }
 
-/** Starts a long-running child and waits until `ready(url)` answers. */
+/** Starts a long-running child, first letting go of the ports taken for `label`, and waits until `readyUrl` answers. */
 async function startService(label, bin, args, env, readyUrl) {
+  await ports.release(label);
   const child = spawn(bin, args, { cwd: ROOT, env, stdio: ["ignore", "inherit", "inherit"] });
   children.add(child);
   child.on("exit", () => children.delete(child));
@@ -158,8 +164,8 @@ async function startStandIns(env, { appUrl }) {
   const out = {};
   const smtp = path.join(ROOT, "fixtures", "smtp", "server.ts");
   if (existsSync(smtp) && !process.env.SMTP_URL) {
-    const smtpPort = await freePort();
-    const webPort = await freePort();
+    const smtpPort = await ports.take("SMTP stand-in", "SMTP");
+    const webPort = await ports.take("SMTP stand-in", "mailbox web");
     await startService("SMTP stand-in", npmBin("tsx"), [smtp], { ...env, SMTP_PORT: String(smtpPort), SMTP_WEB_PORT: String(webPort) }, `http://127.0.0.1:${webPort}/health`);
     out.SMTP_URL = `smtp://127.0.0.1:${smtpPort}`;
     out.MAILBOX_API_URL = `http://127.0.0.1:${webPort}`;
@@ -167,7 +173,7 @@ async function startStandIns(env, { appUrl }) {
   }
   const stripe = path.join(ROOT, "fixtures", "stripe", "server.ts");
   if (existsSync(stripe) && !process.env.STRIPE_API_BASE && !process.env.STRIPE_LIVE) {
-    const stripePort = await freePort();
+    const stripePort = await ports.take("Stripe stand-in", "HTTP");
     await startService(
       "Stripe stand-in",
       npmBin("tsx"),
@@ -194,6 +200,7 @@ async function start() {
   const port = Number(process.env.PORT ?? 3000);
   const host = process.env.HOST ?? "127.0.0.1";
   if (!(await portFree(port))) throw new Error(`port ${port} is taken (another npm start?): stop it, or choose another with PORT=…`);
+  ports.reserve(port);
   const env = await prepare(process.env.DB_NAME ?? "dutymark", { seedDemo: true });
   const appUrl = process.env.APP_URL ?? `http://${host}:${port}`;
   Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
@@ -295,10 +302,12 @@ async function test() {
   env.NODE_ENV = "test";
   // A second, empty database for tests that replace a whole database (backup/restore round trip).
   env.DATABASE_URL_SCRATCH = await ensureDatabase(`${process.env.DB_NAME_TEST ?? "dutymark_test"}_scratch`, { fresh: true });
-  // Ports the OS says are free (TEST_PORT fixes the relay's), so npm test runs beside npm start or another checkout.
-  const port = process.env.TEST_PORT ? Number(process.env.TEST_PORT) : await freePort();
+  // Ports the OS says are free (TEST_PORT fixes the relay's), so npm test runs beside npm start or another checkout;
+  // held from here through the vitest run, whose own servers ask the OS for free ports meanwhile.
+  if (process.env.TEST_PORT) ports.reserve(Number(process.env.TEST_PORT));
+  const port = process.env.TEST_PORT ? Number(process.env.TEST_PORT) : await ports.take("relay", "HTTP");
   // Browser tests reach two app processes on one database through a round-robin relay on `port`.
-  const appPorts = [await freePort(), await freePort()];
+  const appPorts = [await ports.take("app 1", "HTTP"), await ports.take("app 2", "HTTP")];
   const appUrl = `http://127.0.0.1:${port}`;
   Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
   mkdirSync(path.join(DATA_ROOT, "reports"), { recursive: true });
@@ -321,9 +330,9 @@ async function test() {
     if (code !== 0) failed = true;
   }
   if (!onlyUnit) {
-    for (const p of appPorts) {
+    for (const [i, p] of appPorts.entries()) {
       await startService(
-        `app on ${p}`,
+        `app ${i + 1}`,
         process.execPath,
         ["app/serve.mjs", "build/server/index.js"],
         { ...env, PORT: String(p), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1", ACCESS_LOG: process.env.ACCESS_LOG ?? "0" },
@@ -408,16 +417,16 @@ async function testCluster() {
   if (vcode !== 0 || !vr || vr.numPassedTests < 4) failed = true;
 
   // Browser journeys on two app processes, each preferring another node.
-  const port = await freePort();
+  const port = await ports.take("relay", "HTTP");
   const appUrl = `http://127.0.0.1:${port}`;
   Object.assign(env, await startStandIns(env, { appUrl }), { APP_URL: appUrl });
   const apps = [
-    { port: await freePort(), url: urlOf([n1, n2, n3]) },
-    { port: await freePort(), url: urlOf([n2, n3, n1]) },
+    { label: "app 1", port: await ports.take("app 1", "HTTP"), url: urlOf([n1, n2, n3]) },
+    { label: "app 2", port: await ports.take("app 2", "HTTP"), url: urlOf([n2, n3, n1]) },
   ];
   for (const a of apps) {
     await startService(
-      `app on ${a.port}`,
+      a.label,
       process.execPath,
       ["app/serve.mjs", "build/server/index.js"],
       { ...env, DATABASE_URL: a.url, PORT: String(a.port), HOST: "127.0.0.1", NODE_ENV: "production", DUTYMARK_TEST_MODE: "1", ACCESS_LOG: "0" },
