@@ -27,11 +27,13 @@ const VERDICT_RULE =
   "flow_dev_from_curve from −flow_allowed_below to +flow_allowed_above (the curve's flow at the measured head); all fractions. " +
   "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty), or a power or efficiency limit " +
   "missed as read (power_dev_from_curve above power_allowed_above, or efficiency_dev_from_curve below −efficiency_allowed_below) but met within power_accuracy " +
-  "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)). " +
+  "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)), " +
+  "only while power_accuracy is no wider than the allowance of each limit missed as read (power_allowed_above for power, efficiency_allowed_below for efficiency: 0 for 1E and 1U, so an efficiency shortfall as read is never marginal there); wider, unknown. " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
   "unknown: no flow meter, so flow and head are not judged; or, with one, verdict_note says why (the measured speed outside the range the curve may be translated in, " +
-  "a liquid with no curve to hold the pump to, a suction reading at or below the liquid's vapour pressure (misread, or the pump cavitating), or a measured flow outside the flows the curve is published for that the grade's flow arm does not reach). " +
+  "a liquid with no curve to hold the pump to, a suction reading at or below the liquid's vapour pressure (misread, or the pump cavitating), the readings' uncertainty wider than the grade's tolerance (head, flow, or power_accuracy as above), a measured flow outside the flows the curve is published for that the grade's flow arm does not reach, " +
+  "or one whose flow arm reaches them at a measured head the published curve does not state, so that neither arm can be read as read). " +
   "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so.";
 
 /** The quantities a note may carry (verdict-note words: flows, heads, pressures, power, temperature, speed). */

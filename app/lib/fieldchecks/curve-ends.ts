@@ -4,8 +4,15 @@
 // less the grade's flow tolerance to it plus (ISO 9906:2012 6.4.2's cross around the point, from memory; a measured flow
 // Q meets the arm when the curve's flow at the measured head lies from Q / (1 + t₊) to Q / (1 − t₋)), widened by the flow
 // meter's accuracy (the lowest / highest flow within it). Where that arm reaches the published flows, the check is
-// judged on the part that is published and says so; where it does not, no tolerance verdict, with both flows. Pure.
-import { type PumpCurve, type ToleranceGrade } from "~/engine";
+// judged on the part that is published and says so; where it does not, no tolerance verdict, with both flows.
+// The arm is read at the measured head: where the published curve states no such head (beyond its end a head below the
+// lowest it states, below its first point one above the highest), the arm's crossing with the curve lies where the curve
+// states nothing too, and neither arm can be read as read (decision "crossunread"). A fail needs an arm read and missed,
+// so that is no tolerance verdict, with the heads and the gauges' uncertainty — unless a point within the readings'
+// uncertainty reaches the published curve and meets the grade (the crossing off by less than the instruments' accuracy):
+// then at the tolerance limit, as anywhere else, and the note says the reading itself could not be read. Was: "outside
+// tolerance" with both arms "not read". Pure.
+import { headAt, type PumpCurve, type ToleranceGrade } from "~/engine";
 import { fmtPctExact, fmtPctLimit, qtExact, qtLimit } from "~/engine/quantityText";
 
 /** Where a measured flow lies against the published curve's flows, and how far the flow arm of the cross reaches. */
@@ -68,4 +75,67 @@ export function curveEndJudgedNote(e: CurveEnd, gradeId: string, grade: Pick<Tol
   const to = e.side === "beyond" ? qtLimit("flow", e.end, [e.measured]) : Number.isFinite(e.reach) ? qtExact("flow", e.reach, [e.end]) : "";
   const span = e.side === "beyond" ? `from ${from} to the curve's end at ${to}` : `from the curve's first point at ${from}${to ? ` to ${to}` : ""}`;
   return `${PUBLISHED_PART} ${where(e)}, so the head arm of the tolerance cross cannot be read there; ${armWords(e, gradeId, grade, flowAccuracy)}, and only its part ${span} is read against the published curve — the rest of the arm lies where the curve states nothing.`;
+}
+
+/** Where the reading's crossing with the curve is unpublished too: the heads the curve states, the measured head and the gauges' uncertainty. */
+export type CrossingOff = {
+  /** The measured head, m. */
+  head: number;
+  /** The lowest and highest head the published curve states, m. */
+  low: number;
+  high: number;
+  /** How far the measured head lies outside them, m (0 where it touches them). */
+  gap: number;
+  /** The head's uncertainty from the gauges' accuracies given, ± m; null where neither gauge's was given. */
+  uncertainty: number | null;
+};
+
+/**
+ * The lowest and highest head the published curve states, m: over its knots (its head interpolant is monotone between them).
+ * @param curve the curve the check holds the readings to, SI
+ */
+export function publishedHeads(curve: PumpCurve): { low: number; high: number } {
+  const heads = curve.head.x.map((x) => headAt(curve, x) ?? NaN).filter(Number.isFinite);
+  return { low: Math.min(...heads), high: Math.max(...heads) };
+}
+
+/**
+ * Where neither arm of the cross can be read as read (the head arm off the published flows, the flow arm's crossing off the
+ * published heads): the numbers the words need.
+ * @param curve the curve the check holds the readings to, SI
+ * @param head the measured head, m
+ * @param headUncertainty the gauges' accuracies given, in quadrature over ρ·g, ± m
+ * @param gaugesGiven whether either gauge's accuracy was given
+ */
+export function crossingOff(curve: PumpCurve, head: number, headUncertainty: number, gaugesGiven: boolean): CrossingOff {
+  const { low, high } = publishedHeads(curve);
+  const gap = head < low ? low - head : head > high ? head - high : 0;
+  return { head, low, high, gap, uncertainty: gaugesGiven ? headUncertainty : null };
+}
+
+/** "the published curve states heads from ⟦L⟧ to ⟦H⟧ only, and the measured ⟦h⟧ lies ⟦gap⟧ below them". */
+function headsWords(c: CrossingOff): string {
+  const side = c.head < c.low ? "below" : "above";
+  const gap = c.gap > 0 ? `, ${qtExact("head", c.gap, c.uncertainty !== null ? [c.uncertainty] : [])} ${side} them` : "";
+  return `the published curve states heads from ${qtLimit("head", c.low, [c.head])} to ${qtLimit("head", c.high, [c.head])} only, and the measured head is ${qtExact("head", c.head, [c.low, c.high])}${gap}`;
+}
+
+/** The gauges' uncertainty beside that gap: not given (the head taken as read), or its number. */
+function gaugeWords(c: CrossingOff): string {
+  return c.uncertainty === null
+    ? "the gauges' accuracy was not given, so the head is taken as read"
+    : `the gauges' ±${qtExact("head", c.uncertainty, [c.gap])} (in quadrature over ρ·g) ${c.uncertainty >= c.gap ? "reach" : "do not reach"} them`;
+}
+
+/**
+ * The no-verdict note where neither arm can be read as read and no point within the readings' uncertainty meets the grade on
+ * the published curve (a warning, and the e-mail's reason).
+ */
+export function crossingOffNoVerdict(e: CurveEnd, c: CrossingOff, gradeId: string, grade: Pick<ToleranceGrade, "flow">, flowAccuracy: number): string {
+  return `No tolerance verdict: ${where(e)}, so the head arm of the tolerance cross cannot be read there; ${armWords(e, gradeId, grade, flowAccuracy)}, but the arm is read at the measured head, and ${headsWords(c)}: the arm crosses the curve where it states nothing, so neither arm can be read (${gaugeWords(c)}${c.uncertainty !== null && c.uncertainty >= c.gap ? ", and no point within the readings' uncertainty meets the grade on the published curve" : ""}). A fail needs an arm read and missed, so this is no verdict, not a fail. Check at a flow and head the curve is published for, or ask the maker for the curve ${e.side === "beyond" ? "past its end" : "below its first point"}.`;
+}
+
+/** Said after the judged note where the reading itself could not be read on either arm and the verdict rests on a point within its uncertainty. */
+export function crossingOffJudged(c: CrossingOff): string {
+  return ` As read neither arm can be read (${headsWords(c)}; ${gaugeWords(c)}): the verdict rests on the point within the readings' uncertainty that reaches the published curve.`;
 }

@@ -27,11 +27,11 @@ import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type ev
 import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
 import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
-import { curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
+import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
 import { crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
-import { powerAccuracyTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
+import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
@@ -243,16 +243,32 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // A measured flow outside the curve's published flows: judged only on the part of the cross that reaches the published
   // curve, and said so; where the cross does not reach it, no tolerance verdict (curve-ends.ts).
   const curveEnd = verdict !== "unknown" && engine.flowSource === "measured" && engine.flow !== null ? curveEndOf(curve, engine.flow, grade, flowAccuracy) : null;
-  const endNote = curveEnd ? (curveEnd.reaches ? curveEndJudgedNote(curveEnd, grade.id, grade, flowAccuracy) : curveEndNoVerdict(curveEnd, grade.id, grade, flowAccuracy)) : null;
-  if (curveEnd && !curveEnd.reaches) verdict = "unknown";
+  // Where the arm reaches the published flows but the curve there states no head like the measured one, the arm's crossing
+  // is unpublished too: neither arm read as read. No verdict (a fail needs an arm read and missed), unless a point within the
+  // readings' uncertainty meets the grade on the published curve (marginal, said so) — curve-ends.ts.
+  const crossAsRead = engine.grades.find((g) => g.id === grade.id)?.cross ?? null;
+  const unread = curveEnd?.reaches && crossAsRead && crossAsRead.head.curveValue === null && crossAsRead.flow.curveValue === null
+    ? crossingOff(curve, engine.tdh, headUncertainty, readings.suction.accuracy !== null || readings.discharge.accuracy !== null)
+    : null;
+  const unreadNoVerdict = unread !== null && verdict !== "marginal";
+  const endNote = !curveEnd ? null
+    : unreadNoVerdict ? crossingOffNoVerdict(curveEnd, unread, grade.id, grade, flowAccuracy)
+    : curveEnd.reaches ? `${curveEndJudgedNote(curveEnd, grade.id, grade, flowAccuracy)}${unread ? crossingOffJudged(unread) : ""}`
+    : curveEndNoVerdict(curveEnd, grade.id, grade, flowAccuracy);
+  if (curveEnd && (!curveEnd.reaches || unreadNoVerdict)) verdict = "unknown";
   if (endNote) warnings.push(endNote);
   // Marginal within the readings' uncertainty only while it is no wider than the grade's own tolerance (uncertainty-bound.ts):
   // wider, the box straddles the grade whatever the pump does, so no tolerance verdict, with both numbers.
   const curveHeadHere = engine.curveHead ?? (within ? headAt(curve, Math.min(Math.max(within.flow, curve.flowMin), curve.flowMax)) : null);
   const boxWide = within && verdict === "marginal" && curveHeadHere !== null ? uncertaintyTooWide(grade, curveHeadHere, headUncertainty, readings.flowAccuracy) : null;
-  // The same where the marginal rests on the power reading's accuracy: wider than the grade's power tolerance, no verdict.
-  const powerWide = powerWithin && verdict === "marginal" ? powerAccuracyTooWide(grade, powerAccuracy) : null;
-  const tooWide = boxWide || powerWide ? { gradeId: grade.id, head: boxWide?.head ?? null, flow: boxWide?.flow ?? null, power: powerWide } : null;
+  // The same where the marginal rests on the power reading's accuracy: each limit missed as read against its own tolerance
+  // (power t_P, efficiency t_η — 0 for 1E and 1U); wider, no verdict.
+  const powerWide = powerWithin && verdict === "marginal"
+    ? powerLimitsTooWide(grade, powerAccuracy, { power: asRead?.power?.pass === false, efficiency: asRead?.efficiency?.pass === false })
+    : null;
+  const tooWide = boxWide || powerWide
+    ? { gradeId: grade.id, head: boxWide?.head ?? null, flow: boxWide?.flow ?? null, power: powerWide?.power ?? null, efficiency: powerWide?.efficiency ?? null }
+    : null;
   if (tooWide) {
     verdict = "unknown";
     warnings.push(uncertaintyNoVerdict(tooWide, grade, rho));
@@ -306,8 +322,9 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
       : onLiquid.noVerdict ? `Delivered point not judged against grade ${grade.id}: no curve for this liquid (see the warnings)`
       : vapourNoVerdict ? `Delivered point not judged against grade ${grade.id}: the suction reading is at or below the liquid's vapour pressure, so it is misread or the pump is cavitating (see the warnings)`
       : tooWide ? uncertaintyMessage(tooWide)
+      : unreadNoVerdict ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for and the measured head outside the heads it states there, so neither arm of the tolerance cross can be read (see the warnings)`
       : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
-      : `${marginalMessage(engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
+      : `${marginalMessage(unread ? `Delivered point is off the published curve on both arms of grade ${grade.id}'s tolerance cross` : engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,

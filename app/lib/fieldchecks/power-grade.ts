@@ -187,8 +187,26 @@ function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable
   const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${fmtPctLimit(a)}), at the flow and head as read (their uncertainty is allowed for on the tolerance cross only)`;
   const w = pg.within;
   if (w)
-    return `${head}: the limits are missed as read, but within that accuracy a shaft power of ${qt("power", w.shaft)} (${fmtPctSignedExact(w.shaft / shaft - 1, [-a], true)} of the reading) meets them — ${limitsAt(w.check)} — so the verdict is at the tolerance limit (marginal), not a fail (${rule}).`;
+    return `${head}: the limits are missed as read, but within that accuracy a shaft power of ${qt("power", w.shaft)} (${fmtPctSignedExact(w.shaft / shaft - 1, [-a], true)} of the reading) meets them — ${limitsAt(w.check)} — so the verdict is at the tolerance limit (marginal), not a fail (${rule}; ${boundWords(check, a)}).`;
   return `${head}: the limits are missed even at the lowest power within it — ${limitsAt(atLowest(check, a))} — so the check is a fail (${rule}).`;
+}
+
+/**
+ * The bound on a marginal resting on the power reading's accuracy (uncertainty-bound.ts `powerLimitsTooWide`), with its
+ * numbers: each limit missed as read against its own tolerance — "and only while ±2 % is no wider than the tolerance of each
+ * limit missed as read: the power limit's +4 %; wider, no tolerance verdict".
+ */
+function boundWords(check: GradePowerCheck, a: number): string {
+  const limits = [
+    check.power?.pass === false ? { words: `the power limit's ${allowance(check.power.allowed, "+")}`, allowed: check.power.allowed } : null,
+    check.efficiency?.pass === false ? { words: `the efficiency limit's ${allowance(check.efficiency.allowed, "−")}`, allowed: check.efficiency.allowed } : null,
+  ].filter((x) => x !== null);
+  const rule = `and only while ±${fmtPctLimit(a)} is no wider than the tolerance of each limit missed as read: ${limits.map((x) => x.words).join(" and ")}; wider, no tolerance verdict`;
+  // A check recorded before each limit was held to its own tolerance (decision "effbound") keeps its stored verdict: said so.
+  const wider = limits.filter((x) => a > x.allowed);
+  return wider.length
+    ? `${rule} — this check was recorded before that bound: ±${fmtPctLimit(a)} is wider than ${wider.map((x) => x.words).join(" and ")}, so a check recorded today would give no tolerance verdict; the stored verdict is kept`
+    : rule;
 }
 
 /**

@@ -10,10 +10,15 @@
 // Rule (decision "gaugebound", common practice): head uncertainty ΔH = √(a_s² + a_d²)/(ρ·g) against half the head arm's
 // width at the curve's head at the measured flow, (t_H− + t_H+)/2 × H_curve; the flow meter's accuracy (fraction) against
 // half the flow arm's width, (t_Q− + t_Q+)/2; either one wider (strictly: equal is within) is too wide.
-// The power reading's accuracy likewise (decision "fieldmeter"): a check marginal only because a shaft power within the
-// reading's ±a meets the grade's power and efficiency limits (power-grade.ts) says nothing where a is wider than the grade's
-// power tolerance t_P (+8 % for 2B): ±20 % let a pump drawing (1 + 8 %)/(1 − 20 %) = 1.35 × the curve's power read
-// "at the tolerance limit". Wider (a > t_P; equal is within), no tolerance verdict, with both numbers.
+// The power reading's accuracy likewise (decisions "fieldmeter", "effbound"): a check marginal only because a shaft power
+// within the reading's ±a meets the grade's power and efficiency limits (power-grade.ts) says nothing where a is wider than
+// the tolerance of a limit it rescues. Each limit missed as read is held to its own: the power limit to t_P (+8 % for 2B:
+// ±20 % let a pump drawing (1 + 8 %)/(1 − 20 %) = 1.35 × the curve's power read "at the tolerance limit"), the efficiency
+// limit to t_η (−5 % for 2B; the pump's efficiency is ρ·g·Q·H over the shaft power, so the power reading's ±a is its
+// uncertainty too, and ±7 % let 2B's efficiency 6.5 % short read marginal). 1E and 1U allow no efficiency shortfall
+// (t_η = 0), so any accuracy is wider: a shortfall as read is never "at the tolerance limit" there (±9 % made a 1U pump
+// 8.7 % short of its curve's efficiency marginal). Wider (a > t; equal is within), no tolerance verdict, with both numbers.
+// A limit met as read is not held to anything (a reading met as read is not marked down for its accuracy).
 import { G0, type ToleranceGrade } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSide, qt, qtExact, qtLimit } from "~/engine/quantityText";
 
@@ -26,6 +31,8 @@ export type UncertaintyTooWide = {
   flow: { accuracy: number; tolerance: number } | null;
   /** Fractions: the power reading's accuracy and the grade's power tolerance (above the curve's); null or missing where within. */
   power?: { accuracy: number; tolerance: number } | null;
+  /** Fractions: the power reading's accuracy and the grade's efficiency tolerance (below the curve's; 0 for 1E, 1U); null or missing where within. */
+  efficiency?: { accuracy: number; tolerance: number } | null;
 };
 
 /** Half the width of a tolerance band [below, above] (fractions): what either side of its middle allows. */
@@ -58,14 +65,24 @@ export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "
 }
 
 /**
- * Where the power reading's accuracy is wider than the grade's power tolerance (a > t_P, strictly): both numbers; null
- * where it is within, where no accuracy was given (the power judged as read) or where the grade sets no power limit.
+ * The power and efficiency limits missed as read — so met, if at all, only within the power reading's accuracy — whose own
+ * tolerance the accuracy is wider than (a > t, strictly; equal is within): the power limit against t_P, the efficiency limit
+ * against t_η (0 for 1E and 1U, so any accuracy above 0). Null where none is, where no accuracy was given (judged as read) or
+ * where no limit was missed as read.
  * @param grade tolerance grade (fractions)
  * @param accuracy the power reading's accuracy, ± fraction of the reading, or null when not given
+ * @param missed which limits were missed as read (the engine's `gradePower` at the reading)
  */
-export function powerAccuracyTooWide(grade: Pick<ToleranceGrade, "powerAbove">, accuracy: number | null): { accuracy: number; tolerance: number } | null {
-  if (accuracy === null || grade.powerAbove === undefined) return null;
-  return accuracy > grade.powerAbove ? { accuracy, tolerance: grade.powerAbove } : null;
+export function powerLimitsTooWide(
+  grade: Pick<ToleranceGrade, "powerAbove" | "efficiencyBelow">,
+  accuracy: number | null,
+  missed: { power: boolean; efficiency: boolean },
+): { power: { accuracy: number; tolerance: number } | null; efficiency: { accuracy: number; tolerance: number } | null } | null {
+  if (accuracy === null) return null;
+  const one = (isMissed: boolean, tolerance: number | undefined) => (isMissed && tolerance !== undefined && accuracy > tolerance ? { accuracy, tolerance } : null);
+  const power = one(missed.power, grade.powerAbove);
+  const efficiency = one(missed.efficiency, grade.efficiencyBelow);
+  return power || efficiency ? { power, efficiency } : null;
 }
 
 /** A band's tolerance either side, and where the band is one-sided (1U, 2U) which band it is half of: "5 %", "3 %, half its 0 % to +6 % band,". */
@@ -80,8 +97,12 @@ function compared(w: UncertaintyTooWide): string[] {
     w.head ? `head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} against ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])}` : null,
     w.flow ? `flow ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
     w.power ? `power ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against +${fmtPctLimit(w.power.tolerance)}` : null,
+    w.efficiency ? `efficiency ±${fmtPctExact(w.efficiency.accuracy, [w.efficiency.tolerance])} (the power reading's) against ${effTol(w.efficiency.tolerance)}` : null,
   ].filter((x): x is string => x !== null);
 }
+
+/** An efficiency tolerance as the sentences write it: "−5 %", and "0 %" where the grade allows no shortfall. */
+const effTol = (t: number) => (t === 0 ? "0 %" : `−${fmtPctLimit(t)}`);
 
 /** The verdict's sentence (the result's `message`, quantity tokens): the numbers compared, the rest in the note. */
 export function uncertaintyMessage(w: UncertaintyTooWide): string {
@@ -103,11 +124,19 @@ export function uncertaintyNoVerdict(w: UncertaintyTooWide, grade: Pick<Toleranc
       : null,
     w.flow ? `in flow the meter's ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
     w.power ? `in power the reading's ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
+    w.efficiency
+      ? `in efficiency the power reading's ±${fmtPctExact(w.efficiency.accuracy, [w.efficiency.tolerance])} (the pump's efficiency is ρ·g·Q·H over the shaft power, so that reading's accuracy is its own) against grade ${w.gradeId}'s ${effTol(w.efficiency.tolerance)} below the curve's efficiency${w.efficiency.tolerance === 0 ? " (it allows no shortfall, so any accuracy is wider)" : ""}`
+      : null,
   ].filter((x): x is string => x !== null);
+  // One power reading serves both limits: within the narrower tolerance of those too wide that allow anything at all.
+  const powerTolerances = [w.power?.tolerance, w.efficiency?.tolerance].filter((t): t is number => t !== undefined && t > 0);
   const finer = [
     w.head ? `gauges within about ±${qt("pressure", (w.head.tolerance * density * G0) / Math.SQRT2)} each (equal gauges, for the head within ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])})` : null,
     w.flow ? `a flow meter within ±${fmtPctLimit(w.flow.tolerance)}` : null,
-    w.power ? `a power reading within ±${fmtPctLimit(w.power.tolerance)}` : null,
+    powerTolerances.length ? `a power reading within ±${fmtPctLimit(Math.min(...powerTolerances))}` : null,
   ].filter((x): x is string => x !== null);
-  return `No tolerance verdict: the readings' uncertainty is wider than the grade's own tolerance — ${parts.join("; ")} — so the readings cannot tell a pass from a fail: a point within their uncertainty meets grade ${w.gradeId} however far off the pump is, and "at the tolerance limit" would say more than they do. A grade's tolerance already holds the test's measurement uncertainty (ISO 9906:2012, from memory). Check again with ${finer.join(" and ")}, or finer.`;
+  const noShortfall = w.efficiency?.tolerance === 0
+    ? ` Grade ${w.gradeId} allows no efficiency shortfall, so the efficiency is judged as read: a shortfall as read is never at the tolerance limit, whatever the power reading's accuracy.`
+    : "";
+  return `No tolerance verdict: the readings' uncertainty is wider than the grade's own tolerance — ${parts.join("; ")} — so the readings cannot tell a pass from a fail: a point within their uncertainty meets grade ${w.gradeId} however far off the pump is, and "at the tolerance limit" would say more than they do. A grade's tolerance already holds the test's measurement uncertainty (ISO 9906:2012, from memory).${finer.length ? ` Check again with ${finer.join(" and ")}, or finer.` : ""}${noShortfall}`;
 }

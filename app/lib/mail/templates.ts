@@ -21,12 +21,27 @@ export function escapeHtml(s: string): string {
     .replace(/'/g, "&#39;");
 }
 
-/** One line, no control characters, at most `max` characters (subjects and short labels). */
+/** User-perceived characters (Unicode extended grapheme clusters, UAX #29): a letter with its combining marks, an emoji with its modifiers and joiners. */
+const GRAPHEMES = new Intl.Segmenter(undefined, { granularity: "grapheme" });
+
+/**
+ * One line, no control characters, at most `max` code points (subjects and short labels). A longer one is cut between
+ * user-perceived characters — never inside a surrogate pair, between a letter and its combining mark, or inside an emoji
+ * sequence (a skin tone, a joined family) — and ends with "…" to say it was cut; the "…" counts within `max`.
+ */
 export function oneLine(s: string, max = 120): string {
   // eslint-disable-next-line no-control-regex -- control characters are exactly what is replaced
   const flat = s.replace(/[\u0000-\u001f\u007f]+/g, " ").replace(/\s+/g, " ").trim();
-  const chars = [...flat];
-  return chars.length > max ? `${chars.slice(0, max - 1).join("")}…` : flat;
+  if ([...flat].length <= max) return flat;
+  let kept = "";
+  let count = 0;
+  for (const { segment } of GRAPHEMES.segment(flat)) {
+    const n = [...segment].length;
+    if (count + n > max - 1) break;
+    kept += segment;
+    count += n;
+  }
+  return `${kept.trimEnd()}…`;
 }
 
 /** Accepts only absolute http(s) links: a mail must never carry a javascript: or data: link. */
