@@ -8,7 +8,8 @@ import { viewerOf } from "~/lib/auth/viewer.server";
 import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
-import { armDeviationText, crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, type Readings } from "~/lib/fieldchecks";
+import { armDeviationText, crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "~/lib/fieldchecks";
+import { fmtUtc } from "~/lib/shared/format";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { fmtPctExact, fmtPctSignedExact } from "~/engine/quantityText";
@@ -47,6 +48,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     readable: true as const,
     readings: c.readings,
     result: renderDeep(c.result, m.user.units), // stored when recorded: its sentences render in the reader's units
+    /** The same readings judged under today's rules, where that verdict differs from the stored one (judged-today.ts). */
+    judgedToday: c.judgedToday ? renderDeep(c.judgedToday, m.user.units) : null,
   };
 }
 
@@ -96,6 +99,7 @@ export default function FieldCheckRecord() {
         </p>
         <p className="text-sm">{renderUnits(r.message, sys)}.</p>
         {note ? <p className="text-sm" data-testid="verdict-note">{renderUnits(note, sys)}</p> : null}
+        {d.judgedToday ? <JudgedTodayNote today={d.judgedToday} stored={d.check.verdict} grade={d.check.grade} recordedAt={d.check.createdAt} /> : null}
         {cross ? (
           <div className="rounded-md border border-slate-200 p-2 text-sm" data-testid="grade-cross">
             {crossSentences(cross, { flow: (v, against = [], limit) => fmtQExact(sys, "flow", v, against, limit), head: (v, against = [], limit) => fmtQExact(sys, "head", v, against, limit) }).map((t, i) => (
@@ -280,6 +284,23 @@ function RecordHead({ d }: { d: RecordData }) {
         </p>
       ) : null}
     </>
+  );
+}
+
+/**
+ * Where the readings judged under today's rules give another verdict than the one stored (judged-today.ts): both verdicts,
+ * each with its words, and how to record today's. The stored verdict stays the record's.
+ */
+function JudgedTodayNote({ today, stored, grade, recordedAt }: { today: { verdict: Verdict; message: string; note: string | null }; stored: Verdict; grade: string; recordedAt: string }) {
+  return (
+    <div className="caution space-y-1 text-sm" data-testid="judged-today">
+      <p>
+        Recorded {fmtUtc(recordedAt)} as {VERDICT_TEXT[stored]}, the verdict this record keeps. The same readings against the same frozen curve, judged under
+        the rules Dutymark applies today, give another verdict: <VerdictBadge verdict={today.verdict} grade={grade} /> — {today.message}.
+      </p>
+      {today.note ? <p>{today.note}</p> : null}
+      <p>The sentence above is the one recorded; the tolerance cross and the power and efficiency limits below are read from the stored deviations with today&apos;s allowances. To record today&apos;s verdict, amend this check (a new version with the same readings).</p>
+    </div>
   );
 }
 

@@ -13,6 +13,8 @@ import { data } from "react-router";
 import { db, withTransaction } from "@db/client.server";
 import { fieldCheckPhotos, fieldChecks, projects, projectShares, selections, systems, users, workspaces } from "@db/schema";
 import { frozenOf } from "../projects/selections.server";
+import { readStoredSelection } from "../projects/stored-selection";
+import { judgedToday } from "./judged-today";
 import { openShareTo } from "../projects/shares.server";
 import type { Viewer } from "../libraries";
 import { evaluateCheck } from "./evaluate";
@@ -126,9 +128,11 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
   if (!row) throw notFound("field check");
   // The check carries its own stored result: its page does not read the selection's frozen document.
   let sel: Omit<Awaited<ReturnType<typeof fieldSelectionRecord>>, "record">;
+  let frozenJson: string;
   try {
-    const { record: _record, ...rest } = await fieldSelectionRecord(viewer, row.selectionId);
+    const { record, ...rest } = await fieldSelectionRecord(viewer, row.selectionId);
     sel = rest;
+    frozenJson = record.frozenJson;
   } catch {
     throw notFound("field check");
   }
@@ -146,8 +150,13 @@ export async function getFieldCheck(viewer: Viewer, checkId: number) {
     .orderBy(fieldChecks.version);
   // Its stored documents are read against their schemas: one that fails is said, never shown with numbers (no 500 either).
   const stored = readStoredCheck(row);
+  // The same readings judged under today's rules (judged-today.ts), said beside the stored verdict where they differ; only
+  // where the selection's frozen document reads (the page shows the check from its own record either way).
+  const frozen = stored.ok ? readStoredSelection(frozenJson) : null;
+  const today = stored.ok && frozen?.ok ? judgedToday(frozen.frozen, stored.readings as Readings, row.grade, row.verdict) : null;
   return {
     check: row,
+    judgedToday: today,
     selection: sel,
     ...(stored.ok
       ? { readable: true as const, readings: stored.readings, fields: stored.fields, result: stored.result }
