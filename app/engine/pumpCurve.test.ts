@@ -99,8 +99,9 @@ describe("validation: bad curves throw EngineInputError naming the parameter", (
     expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10 }, { flow: 0.01, head: -1 }] }), "points[1].head");
     expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10, efficiency: 0 }, { flow: 0.01, head: 9, efficiency: 75 }] }), "points[1].efficiency");
   });
-  it("head rising with flow beyond the tolerance (default 10 % of the first head)", () => {
-    expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10 }, { flow: 0.01, head: 11.5 }, { flow: 0.02, head: 8 }] }), "points[1].head");
+  it("head rising with flow beyond the tolerance (default 10 % of the first head) and beyond a drooping peak (25 %, headShape.ts)", () => {
+    expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10 }, { flow: 0.01, head: 12.6 }, { flow: 0.02, head: 8 }] }), "points[1].head"); // 26 % > 25 %
+    expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10 }, { flow: 0.01, head: 10.5 }, { flow: 0.02, head: 11.5 }, { flow: 0.03, head: 8 }] }), "points[2].head"); // highest at 2/3 of its flows
     // ... and a rise after a fall (S-shaped) is also caught.
     expectInputError(() => createPumpCurve({ points: [{ flow: 0, head: 10 }, { flow: 0.01, head: 7 }, { flow: 0.02, head: 8.5 }] }), "points[2].head");
   });

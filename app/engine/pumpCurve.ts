@@ -1,7 +1,8 @@
 /**
  * Pump curves from points, for one speed and impeller diameter. Points are validated
  * (finite; flow ≥ 0 strictly increasing; head ≥ 0 and not rising with flow by more than a
- * tolerance — drooping curves within it are accepted and flagged), then interpolated with
+ * tolerance, or drooping — rising from its first point to one peak at most 25 % above it, then falling
+ * (headShape.ts) —, accepted and flagged), then interpolated with
  * monotone cubics (Fritsch & Carlson 1980, see interp.ts): no oscillation, defined only from
  * the first to the last point (outside → null).
  *
@@ -20,6 +21,7 @@ import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
 import { qt } from "./quantityText.ts";
 import { npshrFlow } from "./npshrEnds.ts";
+import { HeadShape, headRefusalText } from "./headShape.ts";
 
 /** One point of a published curve (SI). */
 export interface PumpPoint {
@@ -48,7 +50,7 @@ export interface PumpCurveInput {
   maxDiameter?: number;
   /** Density the power column refers to, kg/m³ (default 1000). */
   powerDensity?: number;
-  /** Allowed rise of head with flow, as a fraction of the first point's head (default 0.10). */
+  /** Allowed rise of head with flow, as a fraction of the first point's head (default 0.10); a drooping curve may rise to one peak up to 25 % above it (headShape.ts). */
   riseTolerance?: number;
 }
 
@@ -97,7 +99,8 @@ export interface PumpCurve {
 /**
  * Validates curve points without copying them (throws {@link EngineInputError} naming the
  * point and field): finite values; flow ≥ 0 strictly increasing; head ≥ 0, first head > 0,
- * not rising by more than `riseTol` × first head; efficiency 0–1 (> 0 where flow > 0);
+ * its shape falling with rises of at most `riseTol` × first head, or drooping to one peak at most DROOP_MAX (25 %)
+ * above the first head in the first half of its flows (headShape.ts); efficiency 0–1 (> 0 where flow > 0);
  * power and NPSHr > 0.
  * @param pts points (flow m³/s, head m, efficiency fraction, power W, NPSHr m)
  * @param riseTol allowed rise of head with flow, fraction of the first head (dimensionless)
@@ -136,17 +139,19 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
   }
   const h0 = pts[0].head;
   if (!(h0 > 0)) throw new EngineInputError("points[0].head", "the first point's head must be above zero");
-  let runningMin = h0;
+  // The head's shape (headShape.ts): falling with rises within riseTol × the first head, or drooping to one peak at most
+  // DROOP_MAX above it in the first half of the flows; the importer judges the same with a 5 % allowance.
+  const shape = new HeadShape(h0, pts[0].flow, riseTol * h0, 0);
   let headMax = h0;
   for (let i = 1; i < pts.length; i++) {
     const h = pts[i].head;
-    if (h - runningMin > riseTol * h0) {
-      throw new EngineInputError(`points[${i}].head`,
-        `head rises with flow by more than ${Math.round(riseTol * 100)} % of the first point's head (${qt("head", h)} after ${qt("head", runningMin)})`);
-    }
-    runningMin = Math.min(runningMin, h);
+    const refused = shape.judge(h);
+    if (refused) throw new EngineInputError(`points[${i}].head`, headRefusalText(refused, riseTol));
+    shape.take(h, pts[i].flow, i);
     headMax = Math.max(headMax, h);
   }
+  const curve = shape.end();
+  if (curve) throw new EngineInputError(`points[${curve.peakAt}].head`, headRefusalText(curve, riseTol));
   return { headMax, drooping: headMax > h0 * (1 + 1e-9) };
 }
 

@@ -6,7 +6,8 @@
  * plausible best efficiency, and a maker's minimum flow below the last published flow (min-flow.ts). Pure.
  */
 import * as v from "valibot";
-import { BEST_EFFICIENCY, efficiencyPlausible, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import { BEST_EFFICIENCY, efficiencyPlausible, importHeadShape, RISE_FRACTION } from "./point-rules";
+import { DROOP_MAX } from "../../engine/headShape.ts";
 import { MIN_FLOW_RULE, minFlowFits } from "./min-flow";
 
 const NonNegative = v.pipe(v.number(), v.finite(), v.minValue(0));
@@ -41,13 +42,14 @@ export const CurveSetSchema = v.pipe(
   v.check((c) => c.points.length > 0 && c.points[0].head > 0, "the first point's head must be above zero"),
   v.check((c) => c.points.every((p) => !(p.efficiency === 0 && p.flow > 0)), "efficiency must be above zero where flow is above zero"),
   v.check((c) => {
-    let lowest = Infinity;
-    for (const p of c.points) {
-      if (risesTooMuch(p.head, lowest, c.points[0].head)) return false;
-      lowest = Math.min(lowest, p.head);
+    if (!c.points.length) return true; // refused above
+    const shape = importHeadShape(c.points[0].head, c.points[0].flow, 0);
+    for (let i = 1; i < c.points.length; i++) {
+      if (shape.judge(c.points[i].head)) return false;
+      shape.take(c.points[i].head, c.points[i].flow, i);
     }
-    return true;
-  }, `head must not rise above the lowest head before it by more than ${RISE_FRACTION * 100} % of the first head`),
+    return !shape.end();
+  }, `head must fall, rising by at most ${RISE_FRACTION * 100} % of the first head, or droop to one peak at most ${DROOP_MAX * 100} % above the first head in the first half of its flows`),
   v.check((c) => c.minFlow === undefined || minFlowFits(c.minFlow, c.points[c.points.length - 1].flow), MIN_FLOW_RULE),
   v.check((c) => {
     const best = c.points.reduce((m, p) => Math.max(m, p.efficiency ?? -1), -1);

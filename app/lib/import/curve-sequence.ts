@@ -1,7 +1,9 @@
 /**
  * One curve's points in file order, as validate.ts collected them (pure): flow strictly increasing (flow-not-increasing,
- * duplicate-flow), the first head above zero and no zero head before a head above zero (zero), head rising at most 5 % of the first head above the lowest before it
- * (head-rising, point-rules.ts), run-out points past zero head at the end dropped (run-out), a fraction written among
+ * duplicate-flow), the first head above zero and no zero head before a head above zero (zero), the head's shape (point-rules.ts,
+ * engine headShape.ts: a rise beyond 5 % of the first head refused at its row — past 25 % above the first head, or again
+ * after falling — head-rising; a drooping curve kept with a warning, drooping-curve; one peaking past the middle of its
+ * flows refused as a whole, curve-rising), run-out points past zero head at the end dropped (run-out), a fraction written among
  * percents (efficiency-fraction, efficiency-fraction.ts), the best efficiency plausible (efficiency-implausible), η against
  * ρgQH/P (inconsistent), one power at every point (power-constant), at least 3 points (too-few-points), the maker's
  * minimum flow (min-flow) and a speed (no-speed). The accepted points go into the set.
@@ -10,10 +12,11 @@ import type { CurvePoint, CurveSet } from "./curve-schema";
 import { constantPowerReason, PowerRun } from "./constant-power";
 import { fractionsAmongPercents } from "./efficiency-fraction";
 import type { MinFlowCells } from "./min-flow";
-import { efficiencyPlausible, implausibleEfficiencyReason, RISE_FRACTION, risesTooMuch } from "./point-rules";
+import { droopingReason, efficiencyPlausible, headRefusalReason, implausibleEfficiencyReason, importHeadShape } from "./point-rules";
+import type { HeadShape } from "../../engine/headShape.ts";
 import type { Problem, ProblemCode } from "./types";
 import type { Unit } from "./units-in-headers";
-import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
+import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 /** The no-speed warning's words (its fix follows them); the tracer names it beside a curve traced without a speed. */
 export const NO_SPEED_WARNING = "no speed given for this curve";
@@ -44,9 +47,8 @@ export type AddProblem = (row: number, column: string | null, code: ProblemCode,
 /** Checks one curve's rows in order and puts the accepted points into `b.set` (and its maker's minimum flow, where it holds). */
 export function checkCurve(b: Building, key: string, add: AddProblem, density: number, minFlows: MinFlowCells): void {
     let prev: { line: number; point: CurvePoint; raw?: string } | null = null;
-  let first = 0; // head of the curve's first point, the lowest head so far and its line (the engine's rule)
-  let lowest = 0;
-  let lowestLine = 0;
+  let shape: HeadShape | null = null; // the head's shape from the curve's first point (the engine's rule, point-rules.ts)
+  let firstLine = 0;
   let best = -1; // best efficiency of the accepted points, and its line
   let bestLine = 0;
   const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
@@ -95,27 +97,24 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
           `head ${qt("head", 0)} in the middle of the curve (line ${n.line} after it has head ${qt("head", n.point.head)}): a pump's head falls to zero only at the curve's end (run-out); this point is left out`, key);
         continue;
       }
-      if (risesTooMuch(p.head, lowest, first)) {
+      const refused = shape!.judge(p.head);
+      if (refused) {
         // The rise and its limit each read apart from the other (qtExact/qtLimit, fmtPctExact), so a refused rise never reads as the limit.
-        const rise = p.head - lowest;
-        const limit = RISE_FRACTION * first;
-        add(r.line, r.headColumn, "head-rising",
-          `head rises to ${qt("head", p.head)}, ${qtExact("head", rise, [limit])} above the lowest head before it on this curve (${qt("head", lowest)}, line ${lowestLine}): ` +
-          `${fmtPctExact(rise / first, [RISE_FRACTION])} of the first point's head (${qt("head", first)}), more than the ${fmtPctLimit(RISE_FRACTION)} allowed (${qtLimit("head", limit, [rise])})`, key);
+        add(r.line, r.headColumn, "head-rising", headRefusalReason(refused, shape!), key);
         continue;
       }
+      shape!.take(p.head, p.flow, r.line);
     } else if (!(p.head > 0)) {
       add(r.line, r.headColumn, "zero",
         `the curve's first point has head ${qt("head", p.head)}: a pump curve starts above zero head; this point is left out (the next one is the first)`, key);
       continue;
-    } else first = lowest = p.head;
+    } else {
+      shape = importHeadShape(p.head, p.flow, r.line);
+      firstLine = r.line;
+    }
     b.set.points.push(p);
     if (p.power !== undefined) powers.add(p.flow, p.power, r.line);
     prev = r;
-    if (p.head <= lowest) {
-      lowest = p.head;
-      lowestLine = r.line;
-    }
     if (p.efficiency !== undefined && p.efficiency > best) {
       best = p.efficiency;
       bestLine = r.line;
@@ -128,6 +127,13 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
           `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
           key, "warning");
     }
+  }
+  if (shape) {
+    // the whole curve's shape: a rise beyond the allowance peaking past the middle of its flows (curve-rising), else drooping
+    const whole = shape.end();
+    const headColumn = b.rows.find((r) => r.line === shape!.peakAt)?.headColumn ?? null;
+    if (whole) add(shape.peakAt, headColumn, "curve-rising", headRefusalReason(whole, shape), key);
+    else if (shape.drooping) add(shape.peakAt, headColumn, "drooping-curve", droopingReason(shape, firstLine), key, "warning");
   }
   if (best > 0 && !efficiencyPlausible(best))
     add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);

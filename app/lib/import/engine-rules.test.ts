@@ -112,11 +112,11 @@ describe("zero power, NPSHr and efficiency (the engine requires them above zero)
   });
 });
 
-describe("rising head: the engine's rule (running minimum), 5 % of the first head", () => {
-  it("flip: heads 20, 20.98, 21.96 — the third is flagged (21.96 − 20 > 1.0 m), though each step is under 1.0 m", () => {
+describe("rising head: the engine's shape rule (headShape.ts), 5 % of the first head for rounding", () => {
+  it("heads 20, 20.98, 21.96, 18 at 0–30 m³/h: highest at 20 m³/h, two thirds along its flows — a curve rising along most of its length, refused whole (curve-rising)", () => {
     const a = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,20.98", "A,2900,20,21.96", "A,2900,30,18"]));
-    expect(codes(a)).toEqual([[4, "head-rising", "error"]]); // source: rule, 5 % × 20 m = 1.0 m
-    expect(inSI(a.result.problems[0].reason)).toContain("1.96 m above the lowest head before it"); // source: 21.96 − 20
+    expect(codes(a)).toEqual([[4, "curve-rising", "error"]]); // source: rule, peak at 20 m³/h past 50 % of 0–30 m³/h (old code: head-rising at line 4)
+    expect(inSI(a.result.problems[0].reason)).toContain("to its highest, 22.0 m at 20.0 m³/h (line 4), 66.7 % of the way along its flows"); // source: 20 / 30 (arithmetic)
   });
   it("exactly 5 % above the lowest head passes, also after a dip", () => {
     const a = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,21", "A,2900,20,19", "A,2900,30,20", "A,2900,40,15"]));
@@ -130,12 +130,12 @@ describe("rising head: the engine's rule (running minimum), 5 % of the first hea
     const a = analyseCsv(csv(T, ["A,2900,0,20", "A,2900,10,17", "A,2900,20,18.0004", "A,2900,30,15"]));
     expect(codes(a)).toEqual([[4, "head-rising", "error"]]); // source: rule, 18.0004 − 17 = 1.0004 m > 5 % × 20 m = 1.0 m
     expect(inSI(a.result.problems[0].reason)).toBe(
-      "head rises to 18.0 m, 1.0004 m above the lowest head before it on this curve (17.0 m, line 3): 5.002 % of the first point's head (20.0 m), more than the 5 % allowed (1.00 m)",
+      "head rises again to 18.0 m, 1.0004 m above the lowest head since the curve began to fall (17.0 m, line 3; its peak 20.0 m, line 2): 5.002 % of the first point's head (20.0 m), more than the 5 % allowed (1.00 m) — a pump curve rises at most once, from shut-off to one peak, then falls: a second rise is a mistyped value or a shifted row",
     ); // source: 1.0004 / 20 = 5.002 % (arithmetic); limit 0.05 × 20 m = 1 m (importer rule)
     expect(renderQuantities(a.result.problems[0].reason, UNIT_SYSTEMS.US)).toContain("3.282 ft above the lowest head"); // source: 1.0004 m / 0.3048 = 3.2822 ft (NIST SP 811 foot) against 3.2808 ft
   });
   it("flip at the slack: a rise within 1e-6 of the limit passes; one past it is refused and reads apart from the limit in SI and US units", () => {
-    const parts = /, ([\d.]+) (?:m|ft) above .*: ([\d.]+) % of the first point's head .*allowed \(([\d.]+) (?:m|ft)\)$/;
+    const parts = /, ([\d.]+) (?:m|ft) above .*: ([\d.]+) % of the first point's head .*allowed \(([\d.]+) (?:m|ft)\) — /;
     for (const first of [20, 19.96, 7.3, 123.4, 0.9, 3.05]) {
       const lowest = first * 0.8;
       const limit = RISE_FRACTION * first;

@@ -8,6 +8,15 @@ import { firstCurveSets } from "./packed";
 import { fixture } from "./test-helpers";
 
 const demo = generateDemo();
+const DROOPING: [string, string[]][] = [
+  ["a 4 % hump, then a clean curve", ["A,0,40", "A,36,41.6", "A,72,38", "A,108,30", "B,0,30", "B,36,29", "B,72,25"]],
+  ["15 % above shut-off, then a clean curve", ["A,0,40", "A,18,44", "A,36,46", "A,54,45", "A,72,42", "A,108,34", "A,144,22", "B,0,30", "B,36,29", "B,72,25"]],
+  ["a clean curve, then 15 % above shut-off at the file's end", ["B,0,30", "B,36,29", "B,72,25", "A,0,40", "A,18,44", "A,36,46", "A,54,45", "A,72,42", "A,108,34", "A,144,22"]],
+  ["26 % above shut-off", ["A,0,40", "A,18,44", "A,36,50.4", "A,54,45", "A,72,42", "A,144,22"]],
+  ["a second rise after falling", ["A,0,40", "A,18,46", "A,36,40", "A,54,42.5", "A,72,30", "A,90,20"]],
+  ["rising along most of its length", ["A,0,30", "A,10,31", "A,20,32", "A,30,33", "A,40,34", "A,50,35"]],
+];
+const droopCsv = (rows: string[]) => ["model,speed_rpm,flow_m3h,head_m", ...rows.map((r) => r.replace(",", ",2900,"))].join("\n") + "\n";
 const cases: [string, string][] = [
   ["fixtures/csv/long-si.csv", fixture("long-si.csv")],
   ["fixtures/csv/us-units.csv", fixture("us-units.csv")],
@@ -16,6 +25,9 @@ const cases: [string, string][] = [
   ["fixtures/csv/bad.csv", fixture("bad.csv")],
   ["make-big 20 000 points", makeBigCsv({ points: 20_000 })],
   ...demo.flatMap((d) => d.files.map((f) => [`demo ${f.name}`, f.text] as [string, string])),
+  // Drooping curves (point-rules.ts over engine headShape.ts; invented rows, m³/h and m): within the 5 % allowance (fast),
+  // kept with a warning, and the errors the shape rule keeps — above 25 %, a second rise, rising along most of its length.
+  ...DROOPING.map(([name, rows]) => [`drooping: ${name}`, droopCsv(rows)] as [string, string]),
 ];
 
 describe("fast path and full path agree", () => {
@@ -35,6 +47,8 @@ describe("fast path and full path agree", () => {
     expect(analyseCsv(demo[0].files.find((f) => f.variant === "semicolon")!.text).fastPath).toBe(true); // source: decimal comma, long layout
     expect(analyseCsv(fixture("bad.csv")).fastPath).toBe(false); // source: bad.csv has one fault of each kind
     expect(analyseCsv(demo[0].files.find((f) => f.variant === "wide")!.text).fastPath).toBe(false); // source: wide layout is not handled by fast.ts
+    expect(analyseCsv(droopCsv(DROOPING[0][1])).fastPath).toBe(true); // source: a 4 % hump is within the 5 % rounding allowance, no message
+    for (const [name, rows] of DROOPING.slice(1)) expect(analyseCsv(droopCsv(rows)).fastPath, name).toBe(false); // source: each needs a message (warning or error)
   });
 
   it("firstCurveSets: the first n curve sets of either path, equal to the whole list's (a preview of a fast-path result builds only those)", () => {

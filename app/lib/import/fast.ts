@@ -12,7 +12,8 @@ import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
-import { efficiencyPlausible, NPSHR_SMALL, risesTooMuch } from "./point-rules";
+import { efficiencyPlausible, importHeadShape, NPSHR_SMALL } from "./point-rules";
+import type { HeadShape } from "../../engine/headShape.ts";
 import { FRACTION_BELOW } from "./efficiency-fraction";
 import { looksLikeRating } from "./constant-power";
 import { textCell } from "./text-cells";
@@ -128,8 +129,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   let lastRawTrim = "";
   let curSpeed: number | null = null;
   let curImpeller: number | null = null;
-  let firstHead = 0; // head of the current curve's first point, the lowest head so far (the engine's rule), the flow before
-  let lowest = 0;
+  let shape: HeadShape | null = null; // the current curve's head shape (the engine's rule, point-rules.ts), the flow before
   let prevFlow = 0;
   let best = -1; // best efficiency of the current curve (-1: none given)
   // the current curve's powers: how many, their least and largest, the flows of the first and last (constant-power.ts)
@@ -215,6 +215,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
 
     if (!cur || model !== curModel || speed !== curSpeed || impeller !== curImpeller) {
       if (cur && curPoints < 3) return null; // too few points
+      if (shape && (shape.drooping || shape.end())) return null; // a drooping curve's warning, or a curve rising along its length
       if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null; // a maker's minimum flow not below the curve's end
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
       if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
@@ -253,11 +254,11 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     if (eff > 0 && eff < FRACTION_BELOW) return null; // an efficiency below 1 %: perhaps a fraction among percents (efficiency-fraction.ts)
     if (curPoints === 0) {
       if (!(head > 0)) return null;
-      firstHead = lowest = head;
+      shape = importHeadShape(head, flow, line);
     } else {
       if (!(flow > prevFlow)) return null;
-      if (risesTooMuch(head, lowest, firstHead)) return null;
-      if (head < lowest) lowest = head;
+      if (shape!.judge(head)) return null;
+      shape!.take(head, flow, line);
     }
     if (eff > best) best = eff; // NaN (no efficiency) is never above
     if (eff === eff && pow === pow && pow > 0 && flow > 0) {
@@ -275,6 +276,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     curPoints++;
   }
   if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best))) return null;
+  if (shape && (shape.drooping || shape.end())) return null;
   if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null;
   if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null;
   const sets = store.sets.length;

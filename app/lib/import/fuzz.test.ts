@@ -19,7 +19,7 @@ const CODE_SET = {
   "head-rising": true, "efficiency-over-100": true, "too-few-points": true, "duplicate-curve": true, "duplicate-flow": true, "no-speed": true,
   "no-point-values": true, "extra-cells": true, "csv-syntax": true, "mapping": true, "header-changed": true, "run-out": true,
   "inconsistent": true, "zero-dropped": true, "efficiency-implausible": true, "power-constant": true, "npshr-small": true, "key-not-given": true,
-  "min-flow": true, "model-line-break": true, "efficiency-fraction": true,
+  "min-flow": true, "model-line-break": true, "efficiency-fraction": true, "curve-rising": true, "drooping-curve": true,
 } satisfies Record<ProblemCode, true>;
 const CODES = Object.keys(CODE_SET) as ProblemCode[];
 

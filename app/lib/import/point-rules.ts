@@ -4,18 +4,21 @@
  * aside to the full path when a rule is hit). Pure.
  *
  * The engine (app/engine/pumpCurve.ts `checkPumpPoints`, also run by `prepareSearchIndex`) refuses a
- * curve whose first head is not above zero, whose head rises above the lowest head before it by
- * more than a fraction of the first head, with an efficiency of 0 where flow is above zero, or with
+ * curve whose first head is not above zero, whose head's shape breaks engine/headShape.ts (a rise beyond
+ * a fraction of the first head, other than one drooping peak up to 25 % above it in the first half of its flows), with an efficiency of 0 where flow is above zero, or with
  * a power or NPSHr that is not above zero. The importer names each of these at its row, so that no
  * curve set it accepts is later left out of the search without a word.
  */
-import { fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts";
+import { DROOP_MAX, HeadShape, PEAK_BY, type HeadRefusal } from "../../engine/headShape.ts";
 
 /**
- * Head may rise above the lowest head so far on the curve (running minimum, the engine's rule) by at
- * most this fraction of the curve's first head. The engine's default is 10 % and the app's searches
- * allow 100 %: 5 % is tighter than both, so a curve the importer accepts passes the engine too. It
- * lets the slight hump near shutoff and export rounding through and catches swapped or mistyped values.
+ * The rounding allowance of the head's shape (engine headShape.ts), as a fraction of the curve's first head: a head may
+ * rise above the lowest head before it (once falling, the lowest since the fall began) by at most this. The engine's
+ * default is 10 % and the app's searches allow 100 %: 5 % is tighter than both, so a curve the importer accepts passes
+ * the engine too (the shape rule is monotone in it). It lets the slight hump near shutoff and export rounding through
+ * and catches mistyped values (a second rise after falling). A rise above the first head beyond it is a drooping curve:
+ * kept with a warning (`drooping-curve`) up to DROOP_MAX (25 %) with its peak in the first half of the flows, else refused.
  */
 export const RISE_FRACTION = 0.05;
 
@@ -26,9 +29,62 @@ export const RISE_FRACTION = 0.05;
  */
 export const RISE_SLACK = 1e-6;
 
-/** True when `head` rises more than RISE_FRACTION × `first` (× (1 + RISE_SLACK)) above `lowest`. */
-export function risesTooMuch(head: number, lowest: number, first: number): boolean {
-  return head - lowest > RISE_FRACTION * first * (1 + RISE_SLACK);
+/**
+ * The head's shape as the importer judges it (engine headShape.ts at RISE_FRACTION × the first head × (1 + RISE_SLACK)):
+ * `judge` each next head, `take` the accepted ones, `end` the curve. Indexes are source lines.
+ * @param first the curve's first head, m @param flow its flow, m³/s @param line its source line
+ */
+export function importHeadShape(first: number, flow: number, line: number): HeadShape {
+  return new HeadShape(first, flow, RISE_FRACTION * first * (1 + RISE_SLACK), line);
+}
+
+/** "shut-off head" where the first point is at zero flow, else "head at its first published flow". */
+const firstHeadName = (shape: HeadShape) => (shape.flowFirst === 0 ? "shut-off head" : "head at its first published flow");
+
+/**
+ * Why a head (`above-droop`, `second-rise`: code head-rising, the point left out) or a curve (`rising-curve`: code
+ * curve-rising, the curve kept out) is refused, with its numbers, each apart from its limit (qtExact/qtLimit, fmtPctExact).
+ * @param r the refusal (heads m, flows m³/s, indexes source lines)
+ * @param shape the curve's shape so far
+ */
+export function headRefusalReason(r: HeadRefusal, shape: HeadShape): string {
+  const first = shape.first;
+  switch (r.kind) {
+    case "above-droop": {
+      const rise = r.head - first;
+      return `head rises to ${qt("head", r.head)}, ${qtExact("head", rise, [r.limit])} above the curve's ${firstHeadName(shape)} (${qt("head", first)}): ` +
+        `${fmtPctExact(rise / first, [DROOP_MAX])} of it, more than the ${fmtPctLimit(DROOP_MAX)} a drooping curve's peak is taken to reach (${qtLimit("head", r.limit, [rise])}; ` +
+        "makers' drooping curves peak some 5–15 % above shut-off, common practice) — a mistyped value, or the head column read in the wrong unit";
+    }
+    case "second-rise": {
+      const limit = RISE_FRACTION * first;
+      return `head rises again to ${qt("head", r.head)}, ${qtExact("head", r.rise, [limit])} above the lowest head since the curve began to fall ` +
+        `(${qt("head", r.low)}, line ${r.lowAt}; its peak ${qt("head", r.peak)}, line ${r.peakAt}): ${fmtPctExact(r.rise / first, [RISE_FRACTION])} of the first point's head (${qt("head", first)}), more than the ${fmtPctLimit(RISE_FRACTION)} allowed (${qtLimit("head", limit, [r.rise])}) ` +
+        "— a pump curve rises at most once, from shut-off to one peak, then falls: a second rise is a mistyped value or a shifted row";
+    }
+    case "rising-curve": {
+      const span = r.flowLast - r.flowFirst;
+      return `head rises from the curve's ${firstHeadName(shape)} ${qt("head", first)} to its highest, ${qt("head", r.peak)} at ${qt("flow", r.peakFlow)} (line ${r.peakAt}), ` +
+        `${fmtPctExact((r.peakFlow - r.flowFirst) / span, [PEAK_BY])} of the way along its flows (${qt("flow", r.flowFirst)} to ${qt("flow", r.flowLast)}), past the ${fmtPctLimit(PEAK_BY)} by which a drooping curve has peaked ` +
+        "(common practice: well before its BEP): a curve rising along most of its length is a system curve, or the head and flow columns are swapped — not a pump curve";
+    }
+  }
+}
+
+/**
+ * The drooping-curve warning: the rule and its numbers (the rise above shut-off, the peak's flow) and what it means
+ * (common practice, from memory).
+ * @param shape the curve's shape, ended without a refusal and drooping
+ * @param firstLine the curve's first point's source line
+ */
+export function droopingReason(shape: HeadShape, firstLine: number): string {
+  const rise = shape.peak - shape.first;
+  const [shutoff, peak] = [qt("head", shape.first), qt("head", shape.peak)];
+  const unpublished = shape.flowFirst === 0 ? "" : " (its shut-off head is not published; taken from the first point)";
+  return `drooping curve: head rises from its ${firstHeadName(shape)} ${shutoff} (line ${firstLine})${unpublished} to a peak of ${peak} at ${qt("flow", shape.peakFlow)} (line ${shape.peakAt}), ` +
+    `${qt("head", rise)} (${fmtPct(rise / shape.first)}) above it: more than the ${fmtPctLimit(RISE_FRACTION)} taken as rounding, within the ${fmtPctLimit(DROOP_MAX)} a drooping peak may reach, peaking in the first half of its flows; kept. ` +
+    `Against a static head (plus pressure difference) between ${shutoff} and ${peak} the pump may not start, its check valve held shut, or may hunt between two flows of one head, ` +
+    "and in parallel a pump started after others may not open its check valve: parallel operation is unsafe (common practice). The search judges each system's operating point from rest";
 }
 
 /**

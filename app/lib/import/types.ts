@@ -11,6 +11,8 @@ export type ProblemCode =
   | "missing-model"
   | "flow-not-increasing"
   | "head-rising"
+  | "curve-rising"
+  | "drooping-curve"
   | "efficiency-over-100"
   | "efficiency-implausible"
   | "too-few-points"

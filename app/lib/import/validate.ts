@@ -14,10 +14,12 @@
  *   a warning (zero-dropped), the point kept;
  * - within a curve, in file order: flow must increase (flow-not-increasing; an equal flow is
  *   duplicate-flow); the first point's head must be above zero (zero, named once: the next point is
- *   then the first); head may rise above the lowest head before it on the curve by at most 5 % of the
- *   first point's head — the engine's rule with a tighter tolerance: this lets through the slight
- *   hump near shutoff and rounding in exports, and catches swapped or mistyped values and rising
- *   (system-like) curves (head-rising);
+ *   then the first); the head's shape (engine headShape.ts, point-rules.ts) with a 5 % rounding allowance
+ *   (tighter than the engine's 10 %): falling, or drooping — rising from shut-off to one peak at most 25 %
+ *   above it, then falling — kept with a warning (drooping-curve); a head more than 25 % above the first or
+ *   rising again after falling is refused at its row (head-rising), a curve whose highest head lies past the
+ *   middle of its flows (rising along most of its length: a system curve, swapped columns) as a whole
+ *   (curve-rising, kept out under either policy);
  * - in a column read in percent, an efficiency below 1 % at a tenth of the curve's best-efficiency flow or more, on a
  *   curve whose best is 10 % or more, is a fraction among percents (efficiency-fraction, efficiency-fraction.ts);
  * - a curve's best efficiency must lie within 5–95 % (efficiency-implausible: a column in fractions read
@@ -288,8 +290,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   const policy = opts.policy ?? "skip-curves";
   // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
   // fewer than 3 good points, or whose best efficiency or maker's minimum flow is wrong (no point to drop: the column's
-  // unit or values are wrong), is kept out (the later copy of a duplicate is never built).
-  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "min-flow";
+  // unit or values are wrong), or that rises along most of its length (curve-rising: the curve is wrong), is kept out (the later copy of a duplicate is never built).
+  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "min-flow" || code === "curve-rising";
   const badKeys = new Set(
     problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
   );
