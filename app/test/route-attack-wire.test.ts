@@ -140,6 +140,34 @@ describe.skipIf(!built)("bodies on the wire, every route", () => {
     expect(fails).toEqual([]);
   }, 300_000);
 
+  test("OPTIONS on every route, as the owner and anonymous: 204, no body, Allow the route's methods and OPTIONS — the methods of its 405 to PUT (api/*: 404)", async () => {
+    const fails: string[] = [];
+    const from = app!.stderr().length;
+    const ask = async (method: string, p: string, headers: Record<string, string>) => {
+      const res = await fetch(`${app!.base}${p}`, { method, headers: { origin: app!.base, ...headers }, redirect: "manual" });
+      return { status: res.status, allow: res.headers.get("allow"), body: await res.text() };
+    };
+    const session = (await startSession(owner.m.userId, new Request(BASE))).split(";")[0];
+    for (const r of ROUTES) {
+      const p = pathFor(r.path, GOOD_PARAMS[r.path]?.(owner) ?? {});
+      const api = isApi(r.path);
+      const put = await ask("PUT", p, api ? { authorization: `Bearer ${owner.token}`, "content-type": "application/json" } : { cookie: session });
+      for (const [who, headers] of [["the owner", api ? { authorization: `Bearer ${owner.token}` } : { cookie: session }], ["anonymous", {}]] as const) {
+        const o = await ask("OPTIONS", p, headers);
+        if (r.path === "api/*") {
+          if (o.status !== 404) fails.push(`OPTIONS ${p} as ${who} → ${o.status}, not 404`);
+          continue;
+        }
+        const want = `${put.allow}, OPTIONS`;
+        if (put.status !== 405 || o.status !== 204 || o.allow !== want || o.body !== "") fails.push(`OPTIONS ${p} as ${who} → ${o.status} Allow ${o.allow} ${o.body.slice(0, 60)} (PUT: ${put.status} Allow ${put.allow})`);
+      }
+    }
+    const log = app!.stderr().slice(from);
+    if (log.trim()) fails.push(`the server's log: ${log.slice(0, 400)}`);
+    if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+    expect(fails).toEqual([]);
+  }, 120_000);
+
   test("odd JSON on the wire to every JSON API (invalid UTF-8, inside 10 000 arrays, a BOM twice): 400 problem+json, the log quiet", async () => {
     const fails: string[] = [];
     const from = app!.stderr().length;
