@@ -39,7 +39,7 @@ const report = (what: string, sent: number, fails: string[]) => {
 
 /** The JSON APIs: a route whose module reads its body as JSON, with a body each answers 200 to. */
 function jsonApis(): { r: (typeof ROUTES)[number]; good: Record<string, unknown> }[] {
-  const out = ROUTES.filter((r) => isApi(r.path) && /calcAction\(|notJsonBody\(/.test(readFileSync(`app/${r.file}`, "utf8"))).map((r) => {
+  const out = ROUTES.filter((r) => isApi(r.path) && /calcAction\(|notJsonBody\(|readJsonBody\(/.test(readFileSync(`app/${r.file}`, "utf8"))).map((r) => {
     const doc = CALC_ENDPOINT_DOCS.find((d) => d.path === `/${r.path}`);
     const good = doc ? (JSON.parse(doc.request) as Record<string, unknown>) : r.path === "api/v1/systems/:id/preview" ? { input: defaultSystemInput() } : null;
     if (!good) throw new Error(`no good JSON body known for /${r.path}: add one here`);
