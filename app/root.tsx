@@ -17,7 +17,7 @@ import { getAuth } from "~/lib/auth/session.server";
 import { authWithWorkspaces } from "~/lib/auth/guards.server";
 import { problem } from "~/lib/shared/problem.server";
 import { refusalResponse } from "~/lib/shared/refusal.server";
-import { methodVerdict } from "~/lib/shared/methods";
+import { methodVerdict, optionsAllow } from "~/lib/shared/methods";
 import { requestScope } from "~/lib/shared/request-scope.server";
 import { ensureOutboxFlusher } from "~/lib/mail/outbox.server";
 import { databaseTrouble } from "~/lib/shared/health.server";
@@ -45,7 +45,7 @@ export const middleware: Route.MiddlewareFunction[] = [
     // reach the app otherwise (the dev server, tests).
     if (!isApi) {
       const { verdict, allow } = methodVerdict(request.method, pattern);
-      if (verdict === "options") return new Response(null, { status: 204, headers: { Allow: allow.join(", ") } });
+      if (verdict === "options") return new Response(null, { status: 204, headers: { Allow: optionsAllow(allow) } });
       if (verdict === "refuse") {
         const detail = `${request.method.toUpperCase()} is not taken here: use ${allow.join(" or ")}.`;
         return refusalResponse(url.pathname, { status: 405, title: "Method Not Allowed", detail, allow: allow.join(", ") });

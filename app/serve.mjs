@@ -6,6 +6,8 @@
 //  - security headers on every response through helmet: a per-request nonce CSP (no inline script
 //    without it), form-action limited to our origin and the Stripe checkout, HSTS behind https,
 //  - request bodies capped by the bytes actually read (chunked or not): 413 at the limit,
+//  - a lingering close after any answer sent before its request's body came in (a refusal, a 413), so a client still
+//    sending reads the answer instead of a reset,
 //  - answers of its own, before React Router, where React Router would refuse first and log a stack: a method
 //    it does not take (PROPFIND, TRACE…: 405 with the route's Allow) and a cross-site write (our CSRF check: 403),
 //    and the methods a route outside /api/ does not take (the root middleware's table: PUT, PATCH, DELETE…),
@@ -92,34 +94,61 @@ const securityHeaders = helmet({
 });
 
 /**
- * After a 413, what the client still sends is read and dropped — never kept — so the client (or a
- * proxy in front) can read the answer; past LINGER_BYTES or LINGER_MS the connection goes.
+ * An answer that goes out before the request's body has all come in — a refusal made before reading it (our 403 and 405,
+ * the app's 401, 403 and 405) or our 413 — is lost to a client still sending if the connection is simply closed: with
+ * `Connection: close` Node ends the socket after the answer and destroys it, and a socket destroyed with bytes unread is
+ * answered by the kernel with a reset, which can reach the client before it has read the answer (EPIPE, ECONNRESET;
+ * RFC 9112 §9.6). So the close lingers, as nginx's lingering_close and Apache's lingering close do: what the client still
+ * sends is read and dropped — never kept — up to the path's body limit (after a 413, LINGER_BYTES) or for LINGER_MS, and
+ * only then is the connection destroyed; a body that ends meanwhile ends it cleanly (a kept-alive connection stays).
  */
 const LINGER_BYTES = 64 * 1024 * 1024;
 const LINGER_MS = 30_000;
+
+function lingerAfterAnswer(req, res, next) {
+  res.on("finish", () => {
+    const socket = req.socket;
+    if (req.complete || !socket || socket.destroyed) return;
+    // Node's own finish handler ran first (registered when the request came in): without keep-alive it has ended the
+    // socket and set it to be destroyed once written. That destroy waits for the body's end here instead.
+    socket.removeListener("finish", socket.destroy);
+    const close = () => socket.destroy();
+    const timer = setTimeout(close, LINGER_MS).unref();
+    const cap = res.locals.tooLarge ? LINGER_BYTES : bodyLimitFor(pathOf(req));
+    let dropped = 0;
+    req.removeAllListeners("data"); // whoever was reading the body (React Router) has answered without it
+    req.on("error", () => {});
+    req.on("data", (chunk) => {
+      dropped += chunk.length;
+      if (dropped > cap) close();
+    });
+    req.once("end", () => {
+      clearTimeout(timer);
+      if (!socket.writableEnded) return; // kept alive: the next request may come
+      if (socket.writableFinished) close();
+      else socket.once("finish", close);
+    });
+    req.resume();
+  });
+  next();
+}
+
+const pathOf = (req) => (req.originalUrl ?? req.url ?? "").split("?")[0];
 
 function tooLarge(req, res, limit, seen) {
   res.locals.tooLarge = true;
   // Whoever was reading the body (React Router) stops here with an error: no action runs on a cut body.
   req.removeAllListeners("data");
   if (req.listenerCount("error") > 0) req.emit("error", Object.assign(new Error("request body over the limit"), { code: "BODY_TOO_LARGE" }));
-  let dropped = 0;
   req.on("error", () => {});
-  req.on("data", (chunk) => {
-    dropped += chunk.length;
-    if (dropped > LINGER_BYTES) req.socket?.destroy();
-  });
-  req.resume();
-  const pathname = (req.originalUrl ?? req.url ?? "").split("?")[0];
   const detail = `The request is too large: the limit here is ${limit} bytes (${seen} read or declared).`;
-  refuse(res, pathname, { status: 413, title: "Content Too Large", detail });
-  setTimeout(() => req.socket?.destroy(), LINGER_MS).unref();
+  refuse(res, pathOf(req), { status: 413, title: "Content Too Large", detail }); // then lingerAfterAnswer drops the rest
 }
 
 /** Counts the body bytes as they are read (by React Router, or by nobody); over the limit → 413. */
 function bodyLimit(req, res, next) {
   if (req.method === "GET" || req.method === "HEAD") return next();
-  const limit = bodyLimitFor((req.originalUrl ?? "").split("?")[0]);
+  const limit = bodyLimitFor(pathOf(req));
   const declared = Number(req.headers["content-length"]);
   if (Number.isFinite(declared) && declared > limit) return tooLarge(req, res, limit, declared);
   let seen = 0;
@@ -128,7 +157,8 @@ function bodyLimit(req, res, next) {
     if (seen <= limit) return;
     req.off("data", count);
     if (!res.headersSent) tooLarge(req, res, limit, seen);
-    else req.socket?.destroy();
+    else if (!res.writableFinished) req.socket?.destroy(); // an answer being written: it cannot be finished now
+    // else answered before the body was read: lingerAfterAnswer drops the rest, up to the limit again
   };
   // Attached in the same tick as React Router's own reader (createRequestHandler builds the Request
   // synchronously), so both see every chunk.
@@ -184,6 +214,7 @@ function beforeRouter(req, res, next) {
 
 const app = express();
 app.disable("x-powered-by");
+app.use(lingerAfterAnswer);
 // Never `true` (every X-Forwarded-For entry believed: the left-most, which the client writes itself, became its address).
 // A number of hops or the proxies' addresses (TRUST_PROXY, checked in lib/shared/env.server.ts): req.ip is then the
 // address the last trusted proxy saw, whatever the client put before it.

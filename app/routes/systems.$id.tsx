@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from "react";
-import { Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
+import { data, Form, redirect, useActionData, useLoaderData, useNavigation } from "react-router";
 import useSWR from "swr";
 import type { Route } from "./+types/systems.$id";
 import { requireMember } from "~/lib/auth/guards.server";
@@ -67,7 +67,8 @@ export async function action({ request, params }: Route.ActionArgs) {
       // Read against the stored document: a size the catalogue no longer lists is kept only where a stored run holds it, and
       // a post without the energy fields keeps the stored settings.
       const { input, name, errors } = readSystemForm(form, sys, await storedForEditor(viewer, id));
-      if (!input) return { errors, notice: null };
+      // Field errors answer 400, as every other form's (the page is rendered again with them, with or without JavaScript).
+      if (!input) return data({ errors, notice: null }, { status: 400 });
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
       return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved.", saved: true };

@@ -49,7 +49,7 @@ test("POST /systems/:id with a value whose SI form or display overflows a double
   const saved = (await db().select().from(systems).where(eq(systems.id, system)))[0].inputJson;
   for (const [field, value] of [["pressureDifference", "1e308"], ["suctionSurfacePressure", "1e308"], ["dutyHead", "1e308"], ["staticHigh", "-1e308"], ["dutyFlow", "1e308"], ["flowMax", "1e308"]]) {
     const r = await post(editorForm({ [field]: value }));
-    expect(r.status, `${field}=${value}`).toBe(200); // the page's own answer to any refused field (errors shown in the form)
+    expect(r.status, `${field}=${value}`).toBe(400); // a refused field: 400, the page with the errors shown in the form
     const errors = (r.body as { errors: Record<string, string>; saved?: boolean }).errors;
     expect(errors[field], `${field}=${value}`).toBeTruthy();
     expect((r.body as { saved?: boolean }).saved).toBeUndefined();

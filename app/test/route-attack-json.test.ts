@@ -39,7 +39,7 @@ const report = (what: string, sent: number, fails: string[]) => {
 
 /** The JSON APIs: a route whose module reads its body as JSON, with a body each answers 200 to. */
 function jsonApis(): { r: (typeof ROUTES)[number]; good: Record<string, unknown> }[] {
-  const out = ROUTES.filter((r) => isApi(r.path) && /calcAction\(|notJsonBody\(/.test(readFileSync(`app/${r.file}`, "utf8"))).map((r) => {
+  const out = ROUTES.filter((r) => isApi(r.path) && /calcAction\(|notJsonBody\(|readJsonBody\(/.test(readFileSync(`app/${r.file}`, "utf8"))).map((r) => {
     const doc = CALC_ENDPOINT_DOCS.find((d) => d.path === `/${r.path}`);
     const good = doc ? (JSON.parse(doc.request) as Record<string, unknown>) : r.path === "api/v1/systems/:id/preview" ? { input: defaultSystemInput() } : null;
     if (!good) throw new Error(`no good JSON body known for /${r.path}: add one here`);
@@ -83,11 +83,21 @@ test("a JSON API sent its body as a form, multipart, text or another JSON-like t
   expect(fails).toEqual([]);
 }, 60_000);
 
+/** The first field of a JSON object's text as `"name":value`. */
+const firstField = (g: string) => {
+  const [k, val] = Object.entries(JSON.parse(g) as Record<string, unknown>)[0];
+  return `${JSON.stringify(k)}:${JSON.stringify(val)}`;
+};
+
 /** Whole bodies: each is refused with a 400 naming the body, or (`mayPass`) answered as its good body is. */
-const WHOLE: { name: string; body: (good: string) => BodyInit; mayPass?: boolean }[] = [
+const WHOLE: { name: string; body: (good: string) => BodyInit; mayPass?: boolean; names?: string | ((good: string) => string) }[] = [
   { name: "a byte-order mark before it", body: (g) => "\uFEFF" + g, mayPass: true },
   { name: "two byte-order marks", body: (g) => "\uFEFF\uFEFF" + g },
-  { name: "a duplicate key", body: (g) => g.replace(/^\{/, '{"__dup":1,"__dup":2,'), mayPass: true },
+  // a name twice (JSON.parse kept the last): refused naming it (lib/shared/strict-json.ts)
+  { name: "the good body's first field twice, the same value", body: (g) => g.replace(/^\{/, `{${firstField(g)},`), names: (g) => `"${Object.keys(JSON.parse(g))[0]}" twice` },
+  { name: "a duplicate key", body: (g) => g.replace(/^\{/, '{"__dup":1,"__dup":2,'), names: '"__dup"' },
+  { name: "a duplicate key, once written with an escape", body: (g) => g.replace(/^\{/, '{"__dup":1,"\\u005f_dup":2,'), names: '"__dup"' },
+  { name: "a duplicate key in a nested object", body: (g) => g.replace(/\}$/, ',"__n":[{"k":1},{"k":1,"k":2}]}'), names: '"k" twice in the object at /__n/1' },
   { name: "every key twice, the second null", body: (g) => g.replace(/\}$/, "," + Object.keys(JSON.parse(g)).map((k) => `${JSON.stringify(k)}:null`).join(",") + "}") },
   { name: `an array ${DEEP} levels deep`, body: () => deepArray },
   { name: `an object ${DEEP} levels deep`, body: () => deepObject },
@@ -101,7 +111,7 @@ const WHOLE: { name: string; body: (good: string) => BodyInit; mayPass?: boolean
   { name: "1e309", body: () => "1e309" },
 ];
 
-test("whole JSON bodies of odd shapes on every JSON API: never a 5xx or a stack; a 400 problem+json, or (a BOM, a duplicate key) the good body's answer", async () => {
+test("whole JSON bodies of odd shapes on every JSON API: never a 5xx or a stack; a 400 problem+json (a duplicate key: naming it), or (a BOM) the good body's answer", async () => {
   const fails: string[] = [];
   let sent = 0;
   for (const { r, good } of jsonApis()) {
@@ -113,6 +123,8 @@ test("whole JSON bodies of odd shapes on every JSON API: never a 5xx or a stack;
       if (wrong) fails.push(`POST /${r.path} (${w.name}) → ${wrong}`);
       else if (!w.mayPass && a.status !== 400) fails.push(`POST /${r.path} (${w.name}) → ${a.status}, not 400`);
       else if (w.mayPass && a.status !== 200 && a.status !== 400) fails.push(`POST /${r.path} (${w.name}) → ${a.status}`);
+      else if (w.names && !String((JSON.parse(a.text) as { detail?: unknown }).detail).includes(typeof w.names === "string" ? w.names : w.names(text)))
+        fails.push(`POST /${r.path} (${w.name}) → ${a.status} not naming it: ${a.text.slice(0, 200)}`);
     }
   }
   report("odd whole JSON bodies", sent, fails);
@@ -213,7 +225,7 @@ test("form actions: JSON of odd shapes (a BOM, 10 000 deep) refused with a 4xx; 
     const ws = String(owner.m.workspaceId);
     const fields = fieldsOf(r.file);
     const twice = new URLSearchParams([...fields.flatMap((f) => [[f, "1"], [f, "2"]]), ["pageWorkspaceId", ws]]);
-    // an action that reads an intent refuses a form without one, unless it names a default (systems/:id: "save", whose field errors answer 200 as the page's form)
+    // an action that reads an intent refuses a form without one, unless it names a default (systems/:id: "save", whose field errors answer 400 with the page)
     const needsIntent = /\.get\("intent"\)|intent:/.test(src) && !/get\("intent"\) \?\? "/.test(src);
     const asks: { name: string; body: BodyInit; headers: Record<string, string>; refuse: boolean }[] = [
       { name: "JSON with a byte-order mark", body: "\uFEFF" + JSON.stringify({ intent: "delete", pageWorkspaceId: ws }), headers: JSON_TYPE, refuse: true },

@@ -10,7 +10,8 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
 import { createApiToken } from "~/lib/auth/api-tokens.server";
-import { allowedMethods } from "~/lib/shared/methods";
+import { allowedMethods, optionsAllow, unknownMethodAnswer } from "~/lib/shared/methods";
+import { refusalAnswer } from "~/lib/shared/refusal.server";
 import { BASE, makeMember, type TestMember } from "./harness";
 import { asResponse, GOOD_PARAMS, isApi, load, paramsOf, pathFor, ROUTES, send, throughRoot, walkRecords, wrongAnswer, type Answer, type WalkRecords, type Who } from "./route-table";
 
@@ -170,6 +171,13 @@ test("each query parameter as an array (k[]=1, k[0]=1), twice with two values, a
   expect(fails).toEqual([]);
 }, 300_000);
 
+/** The routes of app/routes.ts with their modules, as the build's route manifest hands them to app/serve.mjs (flat: each its whole path). */
+let routeManifest: Record<string, { id: string; path: string; module: unknown }> | null = null;
+async function manifest() {
+  routeManifest ??= Object.fromEntries(await Promise.all(ROUTES.map(async (r) => [r.id, { id: r.id, path: r.path, module: await load(r.file) }] as const)));
+  return routeManifest;
+}
+
 /** One request with any method through the root middleware to the loader (GET, HEAD) or the action (the rest), as React Router routes it. */
 async function sendMethod(r: { path: string; file: string }, as: Who, method: string, params: Record<string, string>): Promise<Answer & { allow: string | null; ran: boolean }> {
   const mod = await load(r.file);
@@ -178,6 +186,15 @@ async function sendMethod(r: { path: string; file: string }, as: Who, method: st
   const body = method === "GET" || method === "HEAD" ? undefined : new URLSearchParams({ intent: "delete", name: "Renamed", pageWorkspaceId: String(stranger.workspaceId) });
   if (body) headers.set("content-type", FORM["content-type"]);
   const request = new Request(BASE + pathFor(r.path, params), { method, headers, body });
+  // what app/serve.mjs answers before React Router (OPTIONS on every route): the same function over the same routes
+  const pathname = pathFor(r.path, params);
+  const early = unknownMethodAnswer(await manifest(), method, pathname);
+  if (early?.status === 204) return { status: 204, type: "", text: "", location: null, allow: early.allow, ran: false };
+  if (early) {
+    const title = early.status === 405 ? "Method Not Allowed" : "Not Found";
+    const a = refusalAnswer(pathname, { status: early.status, title, detail: early.detail, ...("allow" in early ? { allow: early.allow } : {}) });
+    return { status: a.status, type: a.headers["Content-Type"], text: a.body, location: null, allow: a.headers.Allow ?? null, ran: false };
+  }
   const fn = (method === "GET" || method === "HEAD" ? mod.loader : mod.action) as ((a: unknown) => unknown) | undefined;
   let ran = false;
   const res = await throughRoot(request, r.path, params, async () => {
@@ -192,7 +209,7 @@ async function sendMethod(r: { path: string; file: string }, as: Who, method: st
   return { status: res.status, type: res.headers.get("content-type") ?? "", text: await res.text(), location: res.headers.get("location"), allow: res.headers.get("allow"), ran };
 }
 
-test("HEAD, OPTIONS, PUT, PATCH and DELETE on every route as a stranger on the owner's records, and as anonymous: answered as for an id no row has; OPTIONS outside /api/ 204 with the table's Allow; no action run outside /api/", async () => {
+test("HEAD, OPTIONS, PUT, PATCH and DELETE on every route as a stranger on the owner's records, and as anonymous: answered as for an id no row has; OPTIONS 204 with the route's Allow and OPTIONS on every route; no action run outside /api/", async () => {
   const fails: string[] = [];
   let sent = 0;
   for (const r of ROUTES) {
@@ -205,14 +222,20 @@ test("HEAD, OPTIONS, PUT, PATCH and DELETE on every route as a stranger on the o
         const none = await sendMethod(r, as, method, never);
         sent += 2;
         const label = `${method} /${r.path} as ${as.who}`;
-        const wrong = wrongAnswer(taken, { api, anonymous: as === ANON, refusal: !(method === "OPTIONS" && !api) && r.path !== "" && !/^(signin|signup|forgot|reset|verify|healthz|livez|api|dev\/mailbox|\*)$/.test(r.path), secret: OWNER_DATA });
+        const wrong = wrongAnswer(taken, { api, anonymous: as === ANON, refusal: method !== "OPTIONS" && r.path !== "" && !/^(signin|signup|forgot|reset|verify|healthz|livez|api|dev\/mailbox|\*)$/.test(r.path), secret: OWNER_DATA });
         // a HEAD of a page without an id is the stranger's own page; an invitation's token is the key itself (route-attack.test.ts)
         if (wrong && !(method === "HEAD" && (r.path === "invite/:token" || !paramsOf(r.path).some((p) => p !== "*")) && taken.status < 400)) fails.push(`${label} → ${wrong}`);
         if (taken.status !== none.status) fails.push(`${label} → ${taken.status}, where an id no row has → ${none.status} (tells the id is taken)`);
         if (OWNER_DATA.test(taken.text)) fails.push(`${label}: the owner's data in the answer`);
-        if (method === "OPTIONS" && !api && (taken.status !== 204 || taken.allow !== allowedMethods(r.path).join(", "))) fails.push(`${label} → ${taken.status}, Allow ${taken.allow}`);
+        // OPTIONS, one rule (decision "wirereq"): 204 with the route's Allow and OPTIONS — pages from the method table, API
+        // routes from their refusing export's Allow (api/*, no route: 404)
+        const allowOf = async () => (api ? ((await load(r.file)) as { loader?: { allow?: string }; action?: { allow?: string } }) : null);
+        if (method === "OPTIONS" && r.path !== "api/*") {
+          const m = await allowOf();
+          const want = optionsAllow(api ? (m?.loader?.allow ?? m?.action?.allow ?? "?") : allowedMethods(r.path));
+          if (taken.status !== 204 || taken.allow !== want || taken.text !== "") fails.push(`${label} → ${taken.status}, Allow ${taken.allow} (not 204 with Allow ${want})`);
+        }
         if (["PUT", "PATCH", "DELETE"].includes(method) && r.path !== "api/*" && (taken.status !== 405 || !taken.allow)) fails.push(`${label} → ${taken.status}, Allow ${taken.allow} (not 405 with Allow)`);
-        if (method === "OPTIONS" && api && r.path !== "api/*" && (taken.status !== 405 || !taken.allow)) fails.push(`${label} → ${taken.status}, Allow ${taken.allow} (not 405 with Allow)`);
         if (!api && method !== "HEAD" && taken.ran) fails.push(`${label}: the route was reached`);
       }
     }

@@ -54,8 +54,8 @@ function wrongOnWire(a: Answer, api: boolean): string | null {
 
 /**
  * The routes that take a POST (outside /api/ by the method table; under it, an action that is not a refusal of POST): those
- * that read a body. A route that refuses POST answers 405 before reading it (route-attack-bodies.test.ts) and, as any
- * server may, closes the connection on a client still sending (RFC 9112 §9.6), so its answer can be lost to the sender.
+ * that read a body. A route that refuses POST answers 405 before reading it: the test after the next holds every early
+ * answer to reaching a client still sending (app/serve.mjs lingers before closing, RFC 9112 §9.6).
  */
 const takesPost = (r: { path: string; file: string }) =>
   isApi(r.path) ? r.path !== "api/*" && !/export const action = refuseMethod\(/.test(readFileSync(`app/${r.file}`, "utf8")) : allowedMethods(r.path).includes("POST");
@@ -98,6 +98,75 @@ describe.skipIf(!built)("bodies on the wire, every route", () => {
     if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
     expect(fails).toEqual([]);
   }, 180_000);
+
+  test("a chunked POST answered before its body is read (cross-site 403, anonymous 401 or redirect, a bad token's 401, a route that refuses POST 405), on every route: the client reads the answer, never a reset; the log quiet", async () => {
+    const fails: string[] = [];
+    const tally = new Map<string, number>();
+    const from = app!.stderr().length;
+    // Past what the kernel's buffers hold on either side, so the client is still sending when the answer comes;
+    // the same size everywhere (a route's own limit may be 25 MB), within every route's limit + 128 KB
+    const total = bodyLimitFor("/") + 128 * 1024;
+    await db().update(users).set({ currentWorkspaceId: owner.m.workspaceId }).where(eq(users.id, owner.m.userId));
+    const session = (await startSession(owner.m.userId, new Request(BASE))).split(";")[0];
+    for (const r of ROUTES) {
+      const p = pathFor(r.path, GOOD_PARAMS[r.path]?.(owner) ?? {});
+      const api = isApi(r.path);
+      const senders: [string, Record<string, string>][] = [
+        ["cross-site with the owner's cookie", { origin: "http://evil.example", cookie: session }],
+        ["anonymous", {}],
+        ...(api ? [["a token that is none", { authorization: "Bearer dm_not_a_token" }] as [string, Record<string, string>]] : []),
+        ...(takesPost(r) ? [] : [["the owner, where POST is refused", api ? { authorization: `Bearer ${owner.token}` } : { cookie: session }] as [string, Record<string, string>]]),
+      ];
+      for (const [who, headers] of senders) {
+        let a: Answer;
+        try {
+          a = await chunkedPost(app!.port, p, total, { origin: app!.base, "content-type": typeFor(r.path), ...headers });
+        } catch (e) {
+          fails.push(`POST ${p} as ${who} (${total} bytes chunked) → no answer: ${String(e)} after ${(e as { sent?: number }).sent} bytes`);
+          continue;
+        }
+        tally.set(`${who} ${a.status}`, (tally.get(`${who} ${a.status}`) ?? 0) + 1);
+        // anonymous on a page: the redirect to sign in is its answer
+        const wrong = a.status >= 300 && a.status < 400 && !api && a.body.startsWith("/signin") ? null : wrongOnWire(a, api);
+        if (wrong) fails.push(`POST ${p} as ${who} → ${wrong}`);
+      }
+    }
+    console.info(`answered before the body: ${JSON.stringify(Object.fromEntries(tally))}`);
+    expect((await fetch(`${app!.base}/healthz`)).status).toBe(200);
+    await new Promise((done) => setTimeout(done, 200)); // the pipe's last lines (the log is read, not timed)
+    const log = app!.stderr().slice(from);
+    if (log.trim()) fails.push(`the server's log: ${log.slice(0, 400)}`);
+    if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+    expect(fails).toEqual([]);
+  }, 300_000);
+
+  test("OPTIONS on every route, as the owner and anonymous: 204, no body, Allow the route's methods and OPTIONS — the methods of its 405 to PUT (api/*: 404)", async () => {
+    const fails: string[] = [];
+    const from = app!.stderr().length;
+    const ask = async (method: string, p: string, headers: Record<string, string>) => {
+      const res = await fetch(`${app!.base}${p}`, { method, headers: { origin: app!.base, ...headers }, redirect: "manual" });
+      return { status: res.status, allow: res.headers.get("allow"), body: await res.text() };
+    };
+    const session = (await startSession(owner.m.userId, new Request(BASE))).split(";")[0];
+    for (const r of ROUTES) {
+      const p = pathFor(r.path, GOOD_PARAMS[r.path]?.(owner) ?? {});
+      const api = isApi(r.path);
+      const put = await ask("PUT", p, api ? { authorization: `Bearer ${owner.token}`, "content-type": "application/json" } : { cookie: session });
+      for (const [who, headers] of [["the owner", api ? { authorization: `Bearer ${owner.token}` } : { cookie: session }], ["anonymous", {}]] as const) {
+        const o = await ask("OPTIONS", p, headers);
+        if (r.path === "api/*") {
+          if (o.status !== 404) fails.push(`OPTIONS ${p} as ${who} → ${o.status}, not 404`);
+          continue;
+        }
+        const want = `${put.allow}, OPTIONS`;
+        if (put.status !== 405 || o.status !== 204 || o.allow !== want || o.body !== "") fails.push(`OPTIONS ${p} as ${who} → ${o.status} Allow ${o.allow} ${o.body.slice(0, 60)} (PUT: ${put.status} Allow ${put.allow})`);
+      }
+    }
+    const log = app!.stderr().slice(from);
+    if (log.trim()) fails.push(`the server's log: ${log.slice(0, 400)}`);
+    if (fails.length) console.error(`${fails.length} failures:\n${fails.join("\n")}`);
+    expect(fails).toEqual([]);
+  }, 120_000);
 
   test("odd JSON on the wire to every JSON API (invalid UTF-8, inside 10 000 arrays, a BOM twice): 400 problem+json, the log quiet", async () => {
     const fails: string[] = [];

@@ -7,6 +7,7 @@ import { hitRateLimit } from "../shared/ratelimit.server";
 import { runCalc } from "./calculations";
 import { ANON_RATE_LIMIT, BODY_FIELD, CALC_LIMITS, MAX_ERRORS, type CalcEndpoint, type CalcOutcome, type FieldError } from "./schemas";
 import { renderDeep, SI_UNITS } from "../shared/units";
+import { parseStrictJson } from "../shared/strict-json";
 
 // ───────────────────────────── HTTP edge ─────────────────────────────
 
@@ -25,7 +26,7 @@ export const calcMethodNotAllowed = refuseMethod("POST", (method) => `${method} 
 
 type BodyRead = { ok: true; value: unknown } | { ok: false; response: Response };
 
-/** Reads at most `limit` bytes of UTF-8 JSON. */
+/** Reads at most `limit` bytes of UTF-8 JSON, each name once per object (strict-json.ts). */
 async function readJson(request: Request, limit: number, headers: Headers): Promise<BodyRead> {
   const tooLarge = () => ({
     ok: false as const,
@@ -68,11 +69,8 @@ async function readJson(request: Request, limit: number, headers: Headers): Prom
     return bad("is not valid UTF-8");
   }
   if (text.trim() === "") return bad("is empty: send a JSON object");
-  try {
-    return { ok: true, value: JSON.parse(text) };
-  } catch (e) {
-    return bad(`is not valid JSON (${(e as Error).message})`);
-  }
+  const json = parseStrictJson(text); // a name twice in one object refused too (JSON.parse keeps the last)
+  return json.ok ? json : bad(json.problem);
 }
 
 

@@ -1,5 +1,6 @@
 import * as v from "valibot";
 import { data } from "react-router";
+import { parseStrictJson } from "./strict-json";
 
 export type FieldErrors = Record<string, string>;
 
@@ -171,7 +172,8 @@ async function readUrlencoded(request: Request): Promise<FormData> {
 /**
  * The request body as JSON, read strictly: bytes that are not UTF-8 are refused (`request.json()` would put U+FFFD in
  * their place, text nobody sent), as is an empty body or one that is not one JSON text. One byte-order mark before it is
- * taken (RFC 8259 §8.1: a parser MAY ignore it), as the calculators take it; a second is not JSON. `problem`: why not,
+ * taken (RFC 8259 §8.1: a parser MAY ignore it), as the calculators take it; a second is not JSON. A name given twice in
+ * one object is refused (`parseStrictJson`, strict-json.ts), as the calculators refuse it. `problem`: why not,
  * for the route's refusal.
  */
 export async function readJsonBody(request: Request): Promise<{ ok: true; value: unknown } | { ok: false; problem: string }> {
@@ -188,11 +190,8 @@ export async function readJsonBody(request: Request): Promise<{ ok: true; value:
     return { ok: false, problem: "the body is not valid UTF-8" };
   }
   if (text.trim() === "") return { ok: false, problem: "the body is empty" };
-  try {
-    return { ok: true, value: JSON.parse(text) };
-  } catch (e) {
-    return { ok: false, problem: `the body is not valid JSON (${(e as Error).message.slice(0, 120)})` };
-  }
+  const json = parseStrictJson(text); // a name twice in one object refused too (JSON.parse keeps the last)
+  return json.ok ? json : { ok: false, problem: `the body ${json.problem}` };
 }
 
 /** Reads a form body and validates it with a valibot object schema. Oversized bodies are refused upstream (middleware). */

@@ -55,7 +55,7 @@ export const listedPatterns = (): string[] => [...TABLE.keys()];
 
 /**
  * What the root middleware does with a request to a route outside /api/: "pass" to the route,
- * "options" (204 with Allow) or "refuse" (405 with Allow), never running the route's action.
+ * "options" (204 with Allow, `optionsAllow`) or "refuse" (405 with Allow), never running the route's action.
  * GET and HEAD always pass: loaders are reads, and a POST-only route's loader answers 405 itself
  * with its own words.
  */
@@ -117,7 +117,15 @@ export const ROUTER_METHODS: ReadonlySet<string> = new Set(["GET", "HEAD", "POST
 export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string } | { status: 204; allow: string };
 
 /**
- * The answer to a method React Router does not take (null for one it does), and to OPTIONS on an API route (204),
+ * The Allow of an answer to OPTIONS: the methods the route takes, and OPTIONS, which it has just taken. One rule on every
+ * route, page or API (DEVELOPERS.md, decision "wirereq"): 204 with this Allow, nothing else (no CORS: no
+ * Access-Control-* header, so a browser's preflight from another origin still fails).
+ */
+export const optionsAllow = (allow: readonly string[] | string) => [...(typeof allow === "string" ? allow.split(", ") : allow), "OPTIONS"].join(", ");
+
+/**
+ * The answer to a method React Router does not take (null for one it does), and to OPTIONS on every route (204, Allow by
+ * `optionsAllow`; React Router refused OPTIONS on a page with its own 405 and ran an API route's loader for it),
  * with the route's own Allow:
  * outside /api/ from the table above; on an API route the `allow` its refusing export carries
  * (`refuseMethod` in problem.server.ts: the route's one statement of what it takes); an /api/ path no
@@ -126,18 +134,21 @@ export type UnknownMethodAnswer = { status: 405; allow: string; detail: string }
  */
 export function unknownMethodAnswer(routes: Record<string, RouteEntry | undefined>, method: string, pathname: string): UnknownMethodAnswer | null {
   const m = method.toUpperCase();
-  // OPTIONS on an API route: React Router runs the loader for it as for a GET (the answer's body and all); it is
-  // answered here with the route's Allow and nothing else. Pages answer OPTIONS in the root middleware.
-  const apiOptions = m === "OPTIONS" && pathname.startsWith("/api/");
-  if (ROUTER_METHODS.has(m) && !apiOptions) return null;
+  // OPTIONS: React Router runs an API route's loader for it as for a GET (the answer's body and all) and refuses it on a
+  // page (405) before any middleware; it is answered here, on every route, with the route's Allow and nothing else.
+  const options = m === "OPTIONS";
+  if (ROUTER_METHODS.has(m) && !options) return null;
   const path = pathname === "/_root.data" ? "/" : pathname.replace(/\.data$/, "");
   const matches = matchesOf(routes, path);
   const refuse = (allow: string) => ({ status: 405 as const, allow, detail: `${m} is not taken here: use ${allow.split(", ").join(" or ")}.` });
-  if (!path.startsWith("/api/")) return refuse(allowedMethods(matches?.map((x) => x.route.path).filter(Boolean).join("/")).join(", "));
+  if (!path.startsWith("/api/")) {
+    const allow = allowedMethods(matches?.map((x) => x.route.path).filter(Boolean).join("/"));
+    return options ? { status: 204, allow: optionsAllow(allow) } : refuse(allow.join(", "));
+  }
   const leaf = routes[matches?.at(-1)?.route.id ?? ""]?.module as { loader?: { allow?: unknown }; action?: { allow?: unknown } } | undefined;
   const allow = [leaf?.loader?.allow, leaf?.action?.allow].find((a): a is string => typeof a === "string");
   if (!allow) return { status: 404, detail: "No API route at this path." };
-  return apiOptions ? { status: 204, allow: `${allow}, OPTIONS` } : refuse(allow);
+  return options ? { status: 204, allow: optionsAllow(allow) } : refuse(allow);
 }
 
 /**

@@ -1,0 +1,64 @@
+// The system editor's save (POST /systems/:id, the default intent) refusing a field: 400, as every other form answers its
+// field errors (DEVELOPERS.md "Add a route"; it answered 200 until the "wirereq" helper), with the errors for the page and
+// nothing saved; and on the wire to the built app, posted as a browser without JavaScript posts it, the editor page
+// itself with the message beside the field. A good save stays 200.
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { systems } from "@db/schema";
+import { defaultSystemInput } from "~/lib/projects/hydraulics";
+import * as systemPage from "~/routes/systems.$id";
+import { call, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
+import { walkRecords, type WalkRecords } from "./route-table";
+import { editorPost } from "./editor-post";
+import { plainHtml } from "./render-page";
+
+let owner: WalkRecords;
+beforeAll(async () => {
+  owner = await walkRecords(await makeMember("admin"));
+}, 120_000);
+afterAll(() => closeDb());
+
+const stored = async () => (await db().select().from(systems).where(eq(systems.id, owner.system)))[0].inputJson;
+const post = (form: Record<string, string>) => call(systemPage.action as never, { path: `/systems/${owner.system}`, params: { id: String(owner.system) }, cookie: owner.m.cookie, form });
+
+test("a field the save refuses (a negative duty flow, a duty head of letters): 400 with the field's error and nothing saved; the same form with good values 200 and saved", async () => {
+  const good = editorPost(defaultSystemInput(), "Save status");
+  const ok = await post(good);
+  expect([ok.status, (ok.body as { saved?: boolean }).saved]).toEqual([200, true]);
+  const before = await stored();
+  for (const [field, value] of [["dutyFlow", "-5"], ["dutyHead", "abc"]]) {
+    const r = await post({ ...good, [field]: value });
+    const errors = (r.body as { errors?: Record<string, string> }).errors ?? {};
+    expect([field, r.status, typeof errors[field]]).toEqual([field, 400, "string"]);
+    expect((r.body as { saved?: boolean }).saved).toBeUndefined();
+  }
+  expect(await stored()).toBe(before);
+});
+
+const built = existsSync(path.join(ROOT, "build/server/index.js"));
+describe.skipIf(!built)("on the wire, without JavaScript", () => {
+  let app: BuiltApp | null = null;
+  beforeAll(async () => {
+    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
+  }, 60_000);
+  afterAll(() => app?.stop());
+
+  test("a form post with a negative duty flow: 400, the editor page again (its form, the field marked and its message beside it)", async () => {
+    const form = { ...editorPost(defaultSystemInput(), "Save status"), dutyFlow: "-5" };
+    const message = ((await post(form)).body as { errors: Record<string, string> }).errors.dutyFlow;
+    const res = await fetch(`${app!.base}/systems/${owner.system}`, {
+      method: "POST",
+      headers: { cookie: owner.m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams(form),
+      redirect: "manual",
+    });
+    const html = plainHtml(await res.text());
+    expect([res.status, res.headers.get("content-type")]).toEqual([400, "text/html; charset=utf-8"]);
+    expect(html).toContain(message);
+    expect(html).toMatch(/<form[^>]*method="post"/);
+    expect(html).toMatch(/<input id="f-dutyFlow"[^>]*aria-invalid="true"/);
+  }, 60_000);
+});
