@@ -146,19 +146,24 @@ export function lastPointGap(pumpHead: number, systemHead: number, past?: { flow
 }
 
 /**
- * Pump head − system head at the pump curve's first point, with the first-point rule, the last point's mirrored: a crossing
- * before the first point by no more than LIMIT_ROUNDING of its flow (a curve published from a flow above zero) is a meeting
- * there: the pump's head below the system's by no more than the system gains on the curve's start slope over that flow
- * (nothing is read before the start). At zero flow there is no allowance (no flow lies before it).
- * @param pumpHead the pump's head at its curve's first flow, m
- * @param systemHead the system's head at that flow, m
- * @param before the curve's first flow (m³/s) and `gains`, the system's slope less the curve's start slope there, read just
- *   inside the curve (m per m³/s)
- * @returns pumpHead − systemHead (m), 0 where they meet within LIMIT_ROUNDING before the first flow
+ * Pump head − system head at the pump curve's first point, with the first-point rule, the last point's mirrored: heads apart
+ * by at most LAST_POINT_MATCH of the pump's head are rounding, and they meet there; with `before`, a crossing before the
+ * first point by no more than LIMIT_ROUNDING of its flow (a curve published from a flow above zero) is a meeting there too:
+ * the pump's head below the system's by no more than the system gains on the curve's start slope over that flow (nothing is
+ * read before the start). At zero flow there is no such allowance (no flow lies before it). The one rule of
+ * `solveOperatingPoint` and the charts' `crossingOf`.
+ * @param pumpHead the pump's head at its curve's first flow, m (or any one head unit)
+ * @param systemHead the system's head at that flow, same unit
+ * @param before the curve's first flow (m³/s, or any unit) and `gains`, the system's slope less the curve's start slope
+ *   there, read just inside the curve (m per m³/s, or the same units)
+ * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only or meet within LIMIT_ROUNDING before
  */
-function firstPointGap(pumpHead: number, systemHead: number, before: { flow: number; gains: number }): number {
+export function firstPointGap(pumpHead: number, systemHead: number, before?: { flow: number; gains: number }): number {
+  requireFinite("pumpHead", pumpHead);
+  requireFinite("systemHead", systemHead);
   const gap = pumpHead - systemHead;
-  if (gap < 0 && before.gains > 0 && before.flow > 0 && -gap <= before.gains * LIMIT_ROUNDING * before.flow) return 0;
+  if (Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead)) return 0;
+  if (before && gap < 0 && before.gains > 0 && before.flow > 0 && -gap <= before.gains * LIMIT_ROUNDING * before.flow) return 0;
   return gap;
 }
 
