@@ -32,6 +32,7 @@ import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
 import { qt, qtPair } from "./quantityText.ts";
 import { LIMIT_ROUNDING } from "./limitText.ts";
+import { leastOn, TOUCH_GAP } from "./curveTouch.ts";
 
 export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end" | "coincident";
 
@@ -144,8 +145,33 @@ export function lastPointGap(pumpHead: number, systemHead: number, past?: { flow
   return gap;
 }
 
-/** A meeting of the curves: a crossing, a touch (g keeps its sign on both sides), or a stretch where they coincide. */
-type Root = { x: number; xEnd?: number; fx: number; method: "brent" | "bisection"; iterations: number; kind: "cross" | "touch" | "stretch"; side: number };
+/**
+ * Pump head − system head at the pump curve's first point, with the first-point rule, the last point's mirrored: heads apart
+ * by at most LAST_POINT_MATCH of the pump's head are rounding, and they meet there; with `before`, a crossing before the
+ * first point by no more than LIMIT_ROUNDING of its flow (a curve published from a flow above zero) is a meeting there too:
+ * the pump's head below the system's by no more than the system gains on the curve's start slope over that flow (nothing is
+ * read before the start). At zero flow there is no such allowance (no flow lies before it). The one rule of
+ * `solveOperatingPoint` and the charts' `crossingOf`.
+ * @param pumpHead the pump's head at its curve's first flow, m (or any one head unit)
+ * @param systemHead the system's head at that flow, same unit
+ * @param before the curve's first flow (m³/s, or any unit) and `gains`, the system's slope less the curve's start slope
+ *   there, read just inside the curve (m per m³/s, or the same units)
+ * @returns pumpHead − systemHead (dimension of the heads), 0 where they differ by rounding only or meet within LIMIT_ROUNDING before
+ */
+export function firstPointGap(pumpHead: number, systemHead: number, before?: { flow: number; gains: number }): number {
+  requireFinite("pumpHead", pumpHead);
+  requireFinite("systemHead", systemHead);
+  const gap = pumpHead - systemHead;
+  if (Math.abs(gap) <= LAST_POINT_MATCH * Math.abs(pumpHead)) return 0;
+  if (before && gap < 0 && before.gains > 0 && before.flow > 0 && -gap <= before.gains * LIMIT_ROUNDING * before.flow) return 0;
+  return gap;
+}
+
+/**
+ * A meeting of the curves: a crossing, a touch (g keeps its sign on both sides), or a stretch where they coincide; `after`,
+ * where known, the sign of g just past it (a crossing or touch between two samples, which the samples cannot tell).
+ */
+type Root = { x: number; xEnd?: number; fx: number; method: "brent" | "bisection"; iterations: number; kind: "cross" | "touch" | "stretch"; side: number; after?: number };
 
 function solveInner(
   curve: PumpCurve | PumpCurveInput,
@@ -180,6 +206,11 @@ function solveInner(
   const qL = qs[lastI], dq = Math.min(qL * 1e-6, qL - qs[Math.max(0, lastI - 1)]);
   const gains = dq > 0 ? (systemHead(qL) - systemHead(qL - dq)) / dq - c.head.m[c.head.m.length - 1] : 0; // m per m³/s
   gs[lastI] = lastPointGap(evalCubic(c.head, qL) as number, systemHead(qL), Number.isFinite(gains) ? { flow: qL, gains } : undefined);
+  // The same at the first point, mirrored (firstPointGap): a crossing before a first flow above zero by no more than
+  // LIMIT_ROUNDING of it is a meeting there (before, 1e-8 of the first flow before it read "cannot start").
+  const q0 = qs[0], dq0 = Math.min(q0 * 1e-6, qs[1] - q0);
+  const gains0 = dq0 > 0 ? (systemHead(q0 + dq0) - systemHead(q0)) / dq0 - c.head.m[0] : 0; // m per m³/s
+  if (Number.isFinite(gains0)) gs[0] = firstPointGap(evalCubic(c.head, q0) as number, systemHead(q0), { flow: q0, gains: gains0 });
   // Where the curves run together, g is zero to rounding (LAST_POINT_MATCH of the pump's head) on two samples or more in a
   // row: one stretch where they coincide (a flat stretch of the pump's curve against a system curve as flat at that head),
   // not a crossing at every sample (before, 17 "intersections" of a "drooping curve" on a 30 m stretch against 30 m).
@@ -208,8 +239,10 @@ function solveInner(
       }
     }
   }
+  findTouches(roots, { g, qs, gs, near, xtol, maxIt, pumpHead: (q) => evalCubic(c.head, q) as number });
+  for (const r of roots) iterations += r.kind === "cross" && r.after !== undefined ? r.iterations : 0;
   const points = roots.map((r) => ({ flow: r.x, head: evalCubic(c.head, r.x) as number }));
-  const first = { flow: qs[0], pumpHead: gs[0] + systemHead(qs[0]), systemHead: systemHead(qs[0]) };
+  const first = { flow: qs[0], pumpHead: evalCubic(c.head, qs[0]) as number, systemHead: systemHead(qs[0]) };
   const lastQ = qs[qs.length - 1];
   const last = { flow: lastQ, pumpHead: evalCubic(c.head, lastQ) as number, systemHead: systemHead(lastQ) };
   const warnings: EngineWarning[] = [...c.warnings];
@@ -218,6 +251,7 @@ function solveInner(
   // The sign of g just past each crossing: below zero, the pump's head falls under the system's there (stable: more flow
   // brings less head than the system needs); above zero, it rises above it again (unstable: the flow runs on).
   const afterSign = roots.map((r) => { // the first sample past the root (a stretch's end) not itself at equal heads
+    if (r.after !== undefined) return r.after;
     let j = qs.findIndex((q) => q > (r.xEnd ?? r.x));
     while (j >= 0 && j < gs.length && near(j)) j++;
     return j < 0 || j >= gs.length ? 0 : Math.sign(gs[j]);
@@ -247,7 +281,7 @@ function solveInner(
       atFirstPoint: first, atLastPoint: last, warnings, ...(roots.length ? { unreached } : {}),
       message: c.shutoffHead !== null
         ? `Shutoff head ${pumpFirst} is below the system head ${systemFirst} at zero flow: the pump cannot open its check valve${roots.length ? crossings : " and cannot deliver into this system"}`
-        : `Pump head at its first point (${pumpFirst}) is below the system head there (${systemFirst})${roots.length ? `: the published curve does not show the pump starting from rest (its shut-off head is not published)${crossings}` : " and the curves never meet"}` };
+        : `At the curve's first published point, ${qt("flow", first.flow)}, the pump's head ${pumpFirst} is below the system head there (${systemFirst})${roots.length ? `: the published curve does not show the pump starting from rest (its shut-off head is not published)${crossings}` : " and the curves never meet"}` };
   }
   // From rest (pump head above the system's at the first point, or equal and falling below it) the flow rises to the first
   // crossing where the pump's head falls under the system's: the point it settles at. A start exactly at equal heads with the
@@ -340,4 +374,43 @@ export function operatingPoint(pumpPoints: readonly PumpPoint[], system: SimpleS
   if (!Array.isArray(system.segments)) throw new EngineInputError("system.segments", "must be an array");
   const prepared = prepareSystem({ fluid, staticHead: system.staticHead, discharge: system.segments.map((s) => ({ ...s })) });
   return solveOperatingPoint(curve, systemHeadFunction(prepared));
+}
+
+/**
+ * Touches the samples miss or split (TOUCH_GAP, curveTouch.ts), into `roots` (sorted by flow on return): (1) a dip of
+ * g (or a hump) between samples of one sign: its least within TOUCH_GAP of the pump's head of zero is one touch, deeper two
+ * crossings (before, missed: no sign change at the samples); (2) two crossings in a row, into and back out of a dip no
+ * deeper than TOUCH_GAP of the head: one touch at its least (before, two crossings).
+ */
+function findTouches(roots: Root[], s: { g: (q: number) => number; qs: number[]; gs: number[]; near: (i: number) => boolean;
+  xtol: number; maxIt: number; pumpHead: (q: number) => number }): void {
+  const { g, qs, gs, near, xtol, maxIt } = s;
+  const gap = (q: number) => TOUCH_GAP * Math.abs(s.pumpHead(q)); // m
+  for (let j = 1; j < qs.length - 1; j++) {
+    if (near(j - 1) || near(j) || near(j + 1)) continue;
+    const sg = Math.sign(gs[j]);
+    if (sg === 0 || Math.sign(gs[j - 1]) !== sg || Math.sign(gs[j + 1]) !== sg) continue;
+    if (!(sg * gs[j - 1] > sg * gs[j] && sg * gs[j + 1] >= sg * gs[j])) continue; // not the samples' least of sg·g
+    const m = leastOn((q) => sg * g(q), qs[j - 1], qs[j + 1], xtol);
+    if (m.fx > gap(m.x)) continue; // the curves part
+    if (m.fx >= -gap(m.x)) {
+      roots.push({ x: m.x, fx: sg * m.fx, method: "brent", iterations: 0, kind: "touch", side: sg, after: sg });
+      continue;
+    }
+    for (const [a, b, after] of [[qs[j - 1], m.x, -sg], [m.x, qs[j + 1], sg]]) {
+      const r = brent(g, a, b, xtol, maxIt);
+      if (r) roots.push({ x: r.x, fx: r.fx, method: r.method, iterations: r.iterations, kind: "cross", side: -after, after });
+    }
+  }
+  roots.sort((a, b) => a.x - b.x);
+  for (let k = 0; k + 1 < roots.length; k++) {
+    const r1 = roots[k], r2 = roots[k + 1];
+    if (r1.kind !== "cross" || r2.kind !== "cross" || r1.side === 0 || r2.side !== -r1.side) continue;
+    const sg = r1.side;
+    const m = leastOn((q) => sg * g(q), r1.x, r2.x, xtol);
+    let least = m.fx;
+    for (let i = 0; i < qs.length; i++) if (qs[i] > r1.x && qs[i] < r2.x) least = Math.min(least, sg * gs[i]);
+    if (least < -gap(m.x)) continue; // a real dip: two crossings
+    roots.splice(k, 2, { x: m.x, fx: sg * m.fx, method: r1.method, iterations: r1.iterations + r2.iterations, kind: "touch", side: sg, after: sg });
+  }
 }

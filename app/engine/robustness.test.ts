@@ -205,6 +205,7 @@ describe("public face sweep: non-finite, out-of-domain and unknown values are re
       [(x) => E.solveOperatingPoint(curve, () => 10, { maxIterations: x }), 100, [0, 2.5, 10_001]]],
     crossingFromRest: [[(x) => E.crossingFromRest(x, [-1]), 1, []], [(x) => E.crossingFromRest(1, [x]), -1, []]],
     lastPointGap: [[(x) => E.lastPointGap(x, 30), 30, []], [(x) => E.lastPointGap(30, x), 30, []]],
+    firstPointGap: [[(x) => E.firstPointGap(x, 30), 30, []], [(x) => E.firstPointGap(30, x), 30, []]],
     operatingPointInSystem: [[(x) => E.operatingPointInSystem(curve, { ...sys, staticHead: x }), 10, []]],
     operatingPoint: [[(x) => E.operatingPoint(samplePoints(), { staticHead: x, segments: [], temperatureC: 20 }), 10, []]],
     prepareSystem: [[(x) => E.prepareSystem({ ...sys, staticHead: x }), 10, []]],

@@ -2,7 +2,7 @@
  * Curve arithmetic on point lists (any units): cleaning, linear interpolation at a flow, the band
  * between two curves, a slice of a curve, and where two curves cross. Pure; no React, no DOM.
  */
-import { crossingFromRest, lastPointGap } from "../../engine/operatingPoint.ts";
+import { crossingFromRest, firstPointGap, lastPointGap } from "../../engine/operatingPoint.ts";
 import type { Pt } from "./types.ts";
 
 /**
@@ -102,7 +102,8 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
  * where the samples cannot tell: the system's first sampled flow lies above the pump curve's first (its head at the start is
  * not known; before, the start was judged at the first flow both cover, which marked a point on a pump that cannot start),
  * or the pump's head is still above the system's at the last flow both cover (the engine may find a crossing further out).
- * At the pump curve's last point the engine's last-point rule (`lastPointGap`): heads apart by rounding only meet there.
+ * At the pump curve's last point the engine's last-point rule (`lastPointGap`): heads apart by rounding only meet there;
+ * at its first point the mirror (`firstPointGap`).
  * Used where only sampled curves are at hand (stored field-check charts).
  */
 export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
@@ -123,6 +124,13 @@ export function crossingOf(pump: readonly Pt[] | undefined | null, system: reado
     const pl = p[p.length - 1], pb = p[p.length - 2], prev = flows[last - 1];
     const gains = ((interpolateAt(s, hi) as number) - (interpolateAt(s, prev) as number)) / (hi - prev) - (pl.y - pb.y) / (pl.flow - pb.flow);
     gs[last] = lastPointGap(pl.y, interpolateAt(s, hi) as number, Number.isFinite(gains) ? { flow: hi, gains } : undefined);
+  }
+  // At its first point, the mirror (firstPointGap): rounding, and a crossing before a first flow above zero by no more than
+  // LIMIT_ROUNDING of it, judged on the first sampled slopes, meet there (before, "cannot start": no crossing).
+  {
+    const p0 = p[0], p1 = p[1], next = flows[1];
+    const gains = ((interpolateAt(s, next) as number) - (interpolateAt(s, lo) as number)) / (next - lo) - (p1.y - p0.y) / (p1.flow - p0.flow);
+    gs[0] = firstPointGap(p0.y, interpolateAt(s, lo) as number, Number.isFinite(gains) ? { flow: lo, gains } : undefined);
   }
   const crossings: Pt[] = [];
   for (let i = 0; i < flows.length; i++) {

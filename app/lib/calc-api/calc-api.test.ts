@@ -203,6 +203,24 @@ describe("POST /api/v1/calc/operating-point", () => {
     expect(started.flow_m3s).toBeGreaterThan(0.04);
   });
 
+  test("curves running together over a stretch: coincident, no flow, the stretch's flows and head in stretch and in words; 1e-6 of the head either side, a point", async () => {
+    // Geometry: an invented curve, 40 m at shut-off falling to a flat 30 m from 0.01 to 0.02 m³/s (equal published heads
+    // interpolate flat, Fritsch & Carlson 1980), against a flat 30 m system (no segments, no friction).
+    const flat = { points: [[0, 40], [0.01, 30], [0.015, 30], [0.02, 30], [0.03, 20]].map(([q, h]) => ({ flow_m3s: q, head_m: h })) };
+    const r = await post("operating-point", { pump: flat, system: { static_head_m: 30, segments: [] } });
+    expect(r.status).toBe(200);
+    expect(r.body).toMatchObject({ status: "coincident", flow_m3s: null, head_m: null, stretch: { flow_from_m3s: 0.01, flow_to_m3s: 0.02, head_m: 30 } }); // old code: no stretch
+    // old code: the engine's words, "The pump and system curves coincide from 36.0 m³/h to 72.0 m³/h at 30.0 m: the operating point is undefined — …"
+    expect((r.body as { message: string }).message).toBe("No single operating point: the pump and system curves run together from 36.0 m³/h to 72.0 m³/h at 30.0 m (their heads equal to 1 part in 10¹² all along it; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross");
+    for (const [h, lo, hi] of [[30 * (1 - 1e-6), 0.02, 0.0201], [30 * (1 + 1e-6), 0.0099, 0.01]]) {
+      const b = (await post("operating-point", { pump: flat, system: { static_head_m: h, segments: [] } })).body as { status: string; flow_m3s: number; stretch?: unknown };
+      expect(b.status).toBe("ok");
+      expect(b.flow_m3s).toBeGreaterThan(lo);
+      expect(b.flow_m3s).toBeLessThan(hi);
+      expect(b.stretch).toBeUndefined();
+    }
+  });
+
   test("pump head above the system head at its last point: beyond_curve", async () => {
     const r = await post("operating-point", { pump: PUMP, system: { static_head_m: 0, segments: [{ length_m: 1, diameter_m: 0.3, roughness_m: 0 }] } });
     expect(r.body).toMatchObject({ status: "beyond_curve", flow_m3s: null }); // definition: 17 m at the last point ≫ system head

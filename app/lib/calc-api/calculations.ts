@@ -18,6 +18,7 @@ import {
   type OperatingStatus,
   type PreparedSystem,
 } from "~/engine";
+import { qt } from "~/engine/quantityText";
 import {
   BODY_FIELD,
   DEFAULT_TEMPERATURE_C,
@@ -249,7 +250,17 @@ export type OperatingPointResponse = Answer<{
   message: string;
   /** Every crossing, ascending flow (one when ok, several when multiple; with no_intersection those the pump never reaches from rest; none with beyond_curve). */
   intersections: { flow_m3s: number; head_m: number }[];
+  /** With coincident only: the stretch where the curves run together, its first and last flow and its head. */
+  stretch?: { flow_from_m3s: number; flow_to_m3s: number; head_m: number };
 }>;
+
+/**
+ * The API's words for curves that run together over a stretch (engine status `coincident`: heads equal to 1 part in 10¹²
+ * of the head on two samples or more in a row), with the rule and the stretch's flows and head, and where the numbers are.
+ */
+function coincidentMessage(s: { flowFrom: number; flowTo: number; head: number }): string {
+  return `No single operating point: the pump and system curves run together from ${qt("flow", s.flowFrom)} to ${qt("flow", s.flowTo)} at ${qt("head", s.head)} (their heads equal to 1 part in 10¹² all along it; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross`;
+}
 
 /** POST /api/v1/calc/operating-point, as a pure function of the parsed JSON body. */
 export function calcOperatingPoint(body: unknown): CalcOutcome<OperatingPointResponse> {
@@ -277,8 +288,9 @@ export function calcOperatingPoint(body: unknown): CalcOutcome<OperatingPointRes
       flow_m3s: r.flow,
       head_m: r.head,
       ...(eff !== null && Number.isFinite(eff) ? { efficiency: eff } : {}),
-      message: r.message,
+      message: r.status === "coincident" && r.stretch ? coincidentMessage(r.stretch) : r.message,
       intersections: r.points.map((x) => ({ flow_m3s: x.flow, head_m: x.head })),
+      ...(r.stretch ? { stretch: { flow_from_m3s: r.stretch.flowFrom, flow_to_m3s: r.stretch.flowTo, head_m: r.stretch.head } } : {}),
       fluid: out,
       warnings: warningsOut([...r.warnings, ...sys.warnings], { segments: "system.segments", points: "pump.points", fluid: "system." }),
     } satisfies OperatingPointResponse;

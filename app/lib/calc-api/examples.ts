@@ -113,7 +113,7 @@ export const CALC_ENDPOINT_DOCS: readonly EndpointDoc[] = [
       "status multiple: a drooping curve crosses more than once; every crossing is in intersections and the one the pump settles at from rest is reported (the first where its head falls below the system's); an unstable crossing above it (the pump's head rising above the system's again) is a warning.",
       "status no_intersection: the pump's head at its first point is below the system head there (shutoff below static head): it cannot open its check valve from rest, so there is no operating point even where the curves cross further out (those crossings are still listed in intersections and named in the message); flow_m3s and head_m are null.",
       "status beyond_curve: the pump still gives more head than the system needs at the last published point; the real operating point lies beyond the curve data. flow_m3s and head_m are null.",
-      "status coincident: the curves coincide over a stretch the pump reaches from rest (a flat stretch of its curve against a system curve as flat at that head): there is no single operating point; the stretch's first flow is in intersections, both its ends in the message. flow_m3s and head_m are null.",
+      "status coincident: the curves coincide over a stretch the pump reaches from rest (a flat stretch of its curve against a system curve as flat at that head): there is no single operating point; the stretch's first flow is in intersections, its first and last flow and its head in stretch (flow_from_m3s, flow_to_m3s, head_m, present with coincident only) and in the message. flow_m3s and head_m are null.",
       "efficiency is present only when the points carry efficiency covering the operating flow.",
     ],
   },

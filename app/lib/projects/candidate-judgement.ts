@@ -93,7 +93,17 @@ export function noPointReason(op: OperatingPointResult): string {
     const [pump, system] = qtPair("head", l.pumpHead, l.systemHead);
     return `the curve ends at ${qt("flow", l.flow)} still giving ${pump} against the system's ${system}: the pump would run past its published curve`;
   }
+  if (op.status === "coincident" && op.stretch) return coincidentReason(op.stretch);
   return op.message;
+}
+
+/**
+ * Curves that run together over a stretch (engine status `coincident`: heads equal to 1 part in 10¹² of the head on two
+ * samples or more in a row), in words with the rule and the stretch's flows and head: no single operating point (common
+ * practice, from memory: a duty point needs the curves to cross; on a shared stretch the flow wanders along it).
+ */
+export function coincidentReason(stretch: { flowFrom: number; flowTo: number; head: number }): string {
+  return `the pump and system curves run together from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)} (their heads equal to 1 part in 10¹² all along it), so the pump has no single operating point: it may run anywhere on that stretch and drift along it; change the system or the pump so the curves cross`;
 }
 
 export type BandPoint = {

@@ -25,7 +25,9 @@ export type Contour = { level: number; points: XY[]; closed: boolean };
  * `touch`: the curve meets the level's contour there but stays on the same side (tangent, or grazing a vertex): a known
  * efficiency (the level) that is no crossing, so inside and outside do not alternate there (`contourGaps`).
  */
-export type Crossing = { x: number; y: number; level: number; touch?: true };
+export type Crossing = { x: number; y: number; level: number; touch?: true; along?: true };
+// `along` (with `touch`): the level's contour runs along the curve from the level's previous meeting to here, so the
+// efficiency is the level all the way (no gap between them) and the two ends of the run are one crossing, or a touch, not two.
 
 /** Intersection of segments p1→p2 and q1→q2, or null. */
 function cross(p1: XY, p2: XY, q1: XY, q2: XY): XY | null {
@@ -65,14 +67,16 @@ function pointAt(ring: readonly XY[], closed: boolean, t: number): XY {
  * of flow, so its two sides are above and below: a contour that crosses it changes sides, one that touches it does not. A
  * meeting at an open contour's end (the line stops on the curve), or where a side is not found, stays a crossing.
  */
-function touchesLocally(c: readonly XY[], ring: readonly XY[], closed: boolean, s: number, ss: readonly number[]): boolean {
+function touchesLocally(c: readonly XY[], ring: readonly XY[], closed: boolean, s: number, ss: readonly number[], sEnd = s): boolean {
   const n = ring.length - 1, eps = 1e-9;
-  if (!closed && (s <= eps || s >= n - eps)) return false;
+  if (!closed && (Math.min(s, sEnd) <= eps || Math.max(s, sEnd) >= n - eps)) return false;
   // On a closed ring the parameter n is 0 again: one meeting at its first vertex is found at both.
   const norm = (t: number) => (closed && t >= n - eps ? t - n : t);
-  s = norm(s);
+  // A run along the curve (sEnd): read the side before its lower end and after its higher end.
+  const hiS = Math.max(norm(s), norm(sEnd));
+  s = Math.min(norm(s), norm(sEnd));
   const ts = ss.map(norm);
-  const lower = ts.filter((t) => t < s - eps).sort((u, v) => u - v), higher = ts.filter((t) => t > s + eps).sort((u, v) => u - v);
+  const lower = ts.filter((t) => t < s - eps).sort((u, v) => u - v), higher = ts.filter((t) => t > hiS + eps).sort((u, v) => u - v);
   const prev = lower.length ? lower[lower.length - 1] : closed ? (higher.length ? higher[higher.length - 1] - n : s - n) : 0;
   const next = higher.length ? higher[0] : closed ? (lower.length ? lower[0] + n : s + n) : n;
   const x0 = c[0].x, x1 = c[c.length - 1].x;
@@ -86,16 +90,16 @@ function touchesLocally(c: readonly XY[], ring: readonly XY[], closed: boolean, 
     for (let t = d > 0 ? Math.floor(s) + 1 : Math.ceil(s) - 1; d > 0 ? t < s + d : t > s + d; t += d > 0 ? 1 : -1) if (!inFlows(t)) return false;
     return true;
   };
-  const side = (to: number) => {
-    for (let d = (to - s) / 2, m = 0; m < 30; m++, d /= 2) {
-      if (!over(d)) continue;
-      const p = pointAt(ring, closed, s + d);
+  const side = (to: number, from = s) => {
+    for (let d = (to - from) / 2, m = 0; m < 30; m++, d /= 2) {
+      if (!over(from - s + d)) continue;
+      const p = pointAt(ring, closed, from + d);
       const y = lineAt(c, p.x);
       if (y !== null && Math.abs(p.y - y) > 1e-12 * (1 + Math.abs(y))) return Math.sign(p.y - y);
     }
     return null;
   };
-  const a = side(prev), b = side(next);
+  const a = side(prev), b = side(next, hiS);
   return a !== null && a === b;
 }
 
@@ -109,20 +113,54 @@ function touchesLocally(c: readonly XY[], ring: readonly XY[], closed: boolean, 
 function markTouches(c: readonly XY[], xs: readonly Meeting[], all: readonly Meeting[], contours: readonly Contour[], rings: readonly XY[][]): Crossing[] {
   if (c.length < 2) return xs.map(({ k: _k, s: _s, ...p }) => p);
   const x0 = c[0].x, x1 = c[c.length - 1].x;
-  return xs.map(({ k, s, ...p }) => {
+  const runs = alongRuns(c, xs, contours, rings);
+  const runEnds = new Set(runs.values());
+  return xs.map((m) => {
+    const { k, s, ...p } = m;
+    if (runEnds.has(m)) return { ...p, touch: true as const, along: true as const }; // the run's far end: no crossing of its own
+    const end = runs.get(m); // the contour runs along the curve from here to `end`: one meeting, its sides read past both ends
     const same = xs.filter((q) => q.level === p.level);
     const i = same.findIndex((q) => q.k === k && q.s === s);
-    const before = ((i > 0 ? same[i - 1].x : x0) + p.x) / 2, after = (p.x + (i + 1 < same.length ? same[i + 1].x : x1)) / 2;
-    if (!(before < p.x && after > p.x)) return p;
+    const j = end ? same.indexOf(end) : i;
+    const before = ((i > 0 ? same[i - 1].x : x0) + p.x) / 2, after = ((end ?? p).x + (j + 1 < same.length ? same[j + 1].x : x1)) / 2;
+    if (!(before < p.x && after > (end ?? p).x)) return p;
     const side = (x: number) => {
       const y = lineAt(c, x);
       return y === null ? null : insideLevel({ x, y }, contours, p.level);
     };
     const a = side(before), b = side(after);
     const touch = a !== null && b !== null ? a === b
-      : touchesLocally(c, rings[k], contours[k].closed && contours[k].points.length > 2, s, all.filter((q) => q.k === k).map((q) => q.s).sort((u, v) => u - v));
+      : touchesLocally(c, rings[k], contours[k].closed && contours[k].points.length > 2, s, all.filter((q) => q.k === k).map((q) => q.s).sort((u, v) => u - v), end?.s);
     return touch ? { ...p, touch: true as const } : p;
   });
+}
+
+/**
+ * Where a contour runs along the curve: two meetings in a row of one contour, in order of flow, with the contour between
+ * them on the curve (its vertices there and its midway point within 1 part in 10⁹ of the curve's head, a drawing's
+ * rounding). Before, each end of such a run was a crossing: a contour that runs along the curve and leaves on the side it
+ * came from was two crossings, and the span between them a gap, where the efficiency is the level all along.
+ * @returns the run's first meeting → its last
+ */
+function alongRuns(c: readonly XY[], xs: readonly Meeting[], contours: readonly Contour[], rings: readonly XY[][]): Map<Meeting, Meeting> {
+  const out = new Map<Meeting, Meeting>();
+  const onCurve = (p: XY) => {
+    const y = lineAt(c, p.x);
+    return y !== null && Math.abs(p.y - y) <= 1e-9 * (1 + Math.abs(y));
+  };
+  for (let i = 0; i < xs.length; i++) {
+    const p = xs[i];
+    if (out.has(p)) continue;
+    const q = xs.slice(i + 1).find((m) => m.level === p.level);
+    if (!q || q.k !== p.k || !(q.x > p.x)) continue;
+    const ring = rings[p.k], closed = contours[p.k].closed && contours[p.k].points.length > 2;
+    const n = ring.length - 1, norm = (t: number) => (closed && t >= n - 1e-9 ? t - n : t); // a closed ring's n is its 0
+    const lo = Math.min(norm(p.s), norm(q.s)), hi = Math.max(norm(p.s), norm(q.s));
+    const between = [(lo + hi) / 2];
+    for (let t = Math.floor(lo) + 1; t < hi; t++) between.push(t);
+    if (between.every((t) => onCurve(pointAt(ring, closed, t)))) out.set(p, q);
+  }
+  return out;
 }
 
 /** Every meeting of the curve (a polyline in flow order) with the contours, in order of flow: crossings, and touches marked `touch`. */
@@ -257,7 +295,7 @@ export function contourGaps(xs: readonly Crossing[], end?: number, start?: numbe
   for (let i = 0; i < xs.length; i++) {
     const L = xs[i].level;
     if (flips(xs[i])) seen.set(L, (seen.get(L) ?? 0) + 1);
-    if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x) {
+    if (i + 1 < xs.length && xs[i + 1].level === L && xs[i + 1].x > xs[i].x && !xs[i + 1].along) { // along a run: the level, no gap
       const inside = inAtStart(L) !== ((seen.get(L) ?? 0) % 2 === 1);
       const onStart = inside && L === top && start !== undefined && !past(xs[i].x, start), onEnd = inside && L === top && end !== undefined && !past(end, xs[i + 1].x);
       out.push({
