@@ -60,7 +60,7 @@ describe("a power limit missed as read but met within the reading's accuracy is 
     // Power +1/(1 − x) − 1 ≈ +2 % stays within 1E's +4 %.
     const eff = (x: number) => check("1E", HC, PC / (1 - x), "2").verdict;
     const x = flip(eff, 0.005, 0.03, "marginal", "fail");
-    expect(Math.abs(x - 0.02)).toBeLessThan(1e-9);
+    expect(Math.abs(x - 0.02)).toBeLessThan(2e-8); // 1E's 0 % efficiency side allows 1 part in 10⁸ of the curve's value (limitText.ts gradeSlack; was 1e-12)
     expect(check("1E", HC, PC / (1 - 0.01), "").verdict).toBe("fail"); // as before without an accuracy
   });
 
