@@ -180,7 +180,7 @@ describe("NPSHa at or below zero with no NPSHr on the curve", () => {
     expect(below.npsh!.available).toBeLessThanOrEqual(0);
     expect(below.npsh!.status).toBe("cavitation-risk");
     const said = below.warnings.find((w) => w.code === "npsh-cavitation")!.message;
-    expect(said).toMatch(/is not above zero: cavitation risk whatever the pump \(the curve has no NPSHr at this flow\)/);
+    expect(said).toMatch(/is not above zero: cavitation risk whatever the pump \(no NPSHr at this flow: the curve publishes no NPSHr\)/); // was "(the curve has no NPSHr at this flow)"
     expect(said).not.toMatch(/below NPSHr/);
     expect(above.npsh!.status).toBe("unknown");
     expect(above.warnings.map((w) => w.code)).toContain("npsh-unknown");

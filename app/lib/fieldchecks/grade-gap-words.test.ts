@@ -8,8 +8,8 @@ import { describe, expect, it } from "vitest";
 import { createPumpCurve, gradeCross, headAt, TOLERANCE_GRADES, type GradeLimitCheck } from "~/engine";
 import { gradeAllows, gradeSlack } from "~/engine/quantityText";
 import { samplePoints } from "~/engine/test/curves";
-import { crossSentences, powerGradeSentences, powerGradeSummary, type CrossExplanation, type PowerGrade } from "./index";
-import { armDeviationText } from "./cross";
+import { crossSentences, powerGradeSentences, powerGradeSummary, type PowerGrade } from "./index";
+import { armDeviationText, type CrossExplanation } from "./cross";
 
 const said = (t: string) => Number(t.replace("−", "-").replace(/\s*%.*$/, "").replace(/^\+/, ""));
 
