@@ -214,8 +214,9 @@ export const fmtInt = (x: number | null | undefined) => (x == null || !Number.is
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
  * A non-zero number those decimals would show as zero gets 3 significant digits instead (4e-7 → "4.00e-7",
- * 0.0004 → "0.000400", not "0.000"), and so does one from {@link LARGE_FROM} up (3.28e12 → "3.28e+12"); a rounded zero
- * never carries a minus sign ("-0.000" → "0.000").
+ * 0.0004 → "0.000400", not "0.000"), and so does one from {@link LARGE_FROM} up (3.28e12 → "3.28e+12"); from
+ * {@link GROUPED_FROM} up to it whole digits grouped in threes ("1 234 567", every whole digit kept); a rounded zero never
+ * carries a minus sign ("-0.000" → "0.000"). The minus is ASCII here; a quantity's text writes "−" ({@link trueMinus}).
  * @param x the number, in any unit
  * @param digits decimals wanted instead (count; then a small number may read as zero, but unsigned)
  */
