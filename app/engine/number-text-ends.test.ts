@@ -14,7 +14,7 @@ describe("item 5: a tiny value reads the same from qt and qtExact", () => {
     expect(inSI(qt("head", 1e-15))).toBe("1.00e-15 m");
     expect(inSI(qtExact("head", 1e-15, [0]))).toBe("1.00e-15 m");
     expect(inSI(qtExact("head", 1e-15, [1]))).toBe("1.00e-15 m");
-    expect(inSI(qtExact("head", -2.5e-12, [0]))).toBe("-2.50e-12 m");
+    expect(inSI(qtExact("head", -2.5e-12, [0]))).toBe("−2.50e-12 m");
   });
   it("a tiny value beside a tiny limit it would read as gets more significant digits, in order", () => {
     const [r, l] = [qtExact("head", 1.0004e-12, [1e-12]), qtLimit("head", 1e-12, [1.0004e-12])];
