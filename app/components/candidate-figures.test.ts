@@ -94,8 +94,8 @@ describe("the candidates table's judged figures read apart from their limits", (
     const v = view(ok, 1.1);
     const c = v.candidates[0] as unknown as { result: { npsh: object } };
     c.result.npsh = { status: "cavitation-risk", marginRatio: null, at: "least lift, aged pipe", available: -1.18, rule: "rule", requiredMargin: 1.1 };
-    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("NPSHa -1.18 m at least lift, aged pipe (cavitation-risk)");
-    expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("NPSHa -3.87 ft at least lift, aged pipe (cavitation-risk)"); // 1.18 m / 0.3048
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("NPSHa −1.18 m at least lift, aged pipe (cavitation-risk)");
+    expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("NPSHa −3.87 ft at least lift, aged pipe (cavitation-risk)"); // 1.18 m / 0.3048
   });
 
   it("the range beside 'lowest … at <corner>' holds that lowest: every judged point, not only the band's two edges (made-up figures)", () => {

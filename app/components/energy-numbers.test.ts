@@ -9,7 +9,7 @@ describe("energy numbers", () => {
     expect([currencyMinorDigits("EUR"), currencyMinorDigits("jpy"), currencyMinorDigits("BHD"), currencyMinorDigits(""), currencyMinorDigits("not a code")]).toEqual([2, 0, 3, 2, 2]);
     expect(moneyText(1234.4, "JPY")).toBe("1234 JPY");
     expect(moneyText(1.2346, "BHD")).toBe("1.235 BHD");
-    expect(moneyText(0.004, "EUR")).toBe("under 0.01 EUR");
+    expect(moneyText(0.004, "EUR")).toBe("0.00400 EUR"); // was "under 0.01 EUR" (helper "numtext": money-ends.test.ts)
     expect(moneyText(0, "EUR")).toBe("0.00 EUR");
     expect(moneyText(3, "")).toBe("3.00 (currency not set)");
   });

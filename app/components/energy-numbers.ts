@@ -2,6 +2,7 @@
 // and a column of step values (kWh, hours) printed at one precision with its total, so that the rows add up to the
 // total as printed, or the total says they do not. Money here is a computed amount in the workspace's currency (a
 // float); shared/format.ts's fmtMoney is for integer cents from billing and stays as it is.
+import { trueMinus } from "~/engine/quantityText";
 import { currencyDigits } from "~/lib/shared/money";
 
 /** Digits of a currency's minor unit as written (shared/money.ts `currencyDigits`: EUR 2, JPY 0, BHD 3; 2 when unknown). */
@@ -11,15 +12,17 @@ const unitOf = (currency: string) => currency || "(currency not set)";
 const unsignedZero = (t: string) => (/^-0(\.0+)?$/.test(t) ? t.slice(1) : t);
 
 /**
- * An amount of money to its currency's minor unit: 0.4 EUR → "0.40 EUR", 12.5 → "12.50 EUR", 1234 JPY → "1234 JPY".
- * An amount that is not zero but below the minor unit says so ("under 0.01 EUR"), never a false "0.00"; "—" when missing.
+ * An amount of money to its currency's minor unit (Intl's currency digits, ISO 4217 through CLDR: `currencyDigits`):
+ * 0.4 EUR → "0.40 EUR", 12.5 → "12.50 EUR", 1234 JPY → "1234 JPY", 1.2346 BHD → "1.235 BHD". An amount that is not zero
+ * but rounds to zero there is written as every other number too small for its decimals, 3 significant digits
+ * (quantityText.ts `fmtNum`: "0.00400 EUR", "1.00e-7 EUR"), never a false "0.00" nor a bound in words (it read
+ * "under 0.01 EUR"; helper "numtext"); a negative amount with the true minus "−". "—" when missing.
  */
 export function moneyText(x: number | null | undefined, currency: string): string {
   if (x == null || !Number.isFinite(x)) return "—";
   const d = currencyMinorDigits(currency);
   const t = unsignedZero(x.toFixed(d));
-  if (x !== 0 && Number(t) === 0) return `${x < 0 ? "above −" : "under "}${(10 ** -d).toFixed(d)} ${unitOf(currency)}`;
-  return `${t} ${unitOf(currency)}`;
+  return `${trueMinus(x !== 0 && Number(t) === 0 ? x.toPrecision(3) : t)} ${unitOf(currency)}`;
 }
 
 /** Whether amounts printed at `d` decimals add up, as printed, to their total printed alike. */

@@ -28,14 +28,14 @@ const NPSHR = 2.25; // m, made up
 const E = 1e-6; // relative step either side of a flip
 /** Each flip (in the unit shown) with the words just below and just above it. */
 const FLIPS: [at: number, below: string, above: string][] = [
-  [-0.0005, "-0.001", "below 0"],
+  [-0.0005, "−0.001", "below 0"], // "-0.001" before the true minus (helper "numtext")
   [0, "below 0", "< 0.001"],
   [0.0005, "< 0.001", "0.001"],
 ];
 const side = (at: number, s: -1 | 1) => (at === 0 ? s * 1e-6 : at * (1 + (s * E * Math.sign(at)))); // just below (−1) or above (+1) `at`
 
 describe("the one rule, flipping at −0.0005, 0 and +0.0005 in the unit shown", () => {
-  it("SI: '-0.001 m' | 'below 0 m' | '0.000 m' | '< 0.001 m' | '0.001 m' (old code: '-0.000499… m', '-0.000001 m', '< 0.001 m' up to 0.001 m)", () => {
+  it("SI: '−0.001 m' | 'below 0 m' | '0.000 m' | '< 0.001 m' | '0.001 m' (old code: '-0.000499… m', '-0.000001 m', '< 0.001 m' up to 0.001 m)", () => {
     for (const [at, below, above] of FLIPS) {
       expect(fmtQAboveZero(SI_UNITS, "head", side(at, -1)), `just below ${at} m`).toBe(`${below} m`);
       expect(fmtQAboveZero(SI_UNITS, "head", side(at, 1)), `just above ${at} m`).toBe(`${above} m`);
@@ -57,8 +57,8 @@ describe("the one rule, flipping at −0.0005, 0 and +0.0005 in the unit shown",
     }
     expect(formatNpshaValue(0)).toBe("0.000"); // NPSHa at zero as the candidates table writes it (decision "surfaces2": the chart prints numbers as the app does)
   });
-  it("a token read apart from its NPSHr too: '-0.001 m' stays a number, never '0.000'", () => {
-    expect(renderUnits(qtAboveZero("head", -0.0006, [NPSHR]), SI_UNITS)).toBe("-0.001 m");
+  it("a token read apart from its NPSHr too: '−0.001 m' stays a number, never '0.000'", () => {
+    expect(renderUnits(qtAboveZero("head", -0.0006, [NPSHR]), SI_UNITS)).toBe("−0.001 m");
     expect(renderUnits(qtAboveZero("head", -0.0004, [NPSHR]), SI_UNITS)).toBe("below 0 m");
   });
 });
@@ -75,7 +75,7 @@ describe("every surface that prints NPSHa a hair below zero reads 'below 0 m' ('
   it("the verdict's NPSH qualifier (old code: 'NPSHa -0.000001 m, at or below zero, …')", () => {
     expect(renderUnits(npshAgainstVerdict(zeroJudgement(-1e-6))!, SI_UNITS)).toBe("NPSHa below 0 m, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr");
     expect(renderUnits(npshAgainstVerdict(zeroJudgement(-1e-6))!, US_UNITS)).toMatch(/^NPSHa below 0 ft, at or below zero, /);
-    expect(renderUnits(npshAgainstVerdict(zeroJudgement(-0.0006))!, SI_UNITS)).toMatch(/^NPSHa -0\.001 m, at or below zero, /);
+    expect(renderUnits(npshAgainstVerdict(zeroJudgement(-0.0006))!, SI_UNITS)).toMatch(/^NPSHa −0\.001 m, at or below zero, /);
   });
   it("the system's warning at zero flow and the search's note at the duty", () => {
     const input = { ...defaultSystemInput(), suctionSurfacePressure: 2339, suctionStaticHead: -1e-6 };
@@ -98,7 +98,7 @@ describe("every surface that prints NPSHa a hair below zero reads 'below 0 m' ('
     expect(row("NPSHa / NPSHr \\(design curve\\)")).toBe("below 0 m / 2.50 m");
     expect(r.warnings.map((w) => renderUnits(w, SI_UNITS))).toContain("NPSHa below 0 m is not above zero: cavitation risk whatever the pump's NPSHr");
     // The least NPSHa over the band decides the verdict's line: a corner's, further below zero, or the design point's.
-    expect(npshNoteOf(r, SI_UNITS)).toMatch(/^(but|and) NPSHa (below 0 m|-\d+\.\d+ m), at or below zero, at /);
+    expect(npshNoteOf(r, SI_UNITS)).toMatch(/^(but|and) NPSHa (below 0 m|−\d+\.\d+ m), at or below zero, at /);
     expect(npshNoteOf(r, SI_UNITS)).not.toMatch(/-0\.0000/);
   });
 });

@@ -50,7 +50,7 @@ describe("NPSHa above zero that three decimals in the unit shown read as zero re
   });
   it("zero as before, below zero a number or 'below 0 m' (said at or below zero elsewhere), never '< 0.001'", () => {
     expect(npshPairText(SI_UNITS, 0, NPSHR)).toBe("0.000 m / 2.25 m");
-    expect(npshPairText(SI_UNITS, -0.25, NPSHR)).toBe("-0.250 m / 2.25 m");
+    expect(npshPairText(SI_UNITS, -0.25, NPSHR)).toBe("−0.250 m / 2.25 m"); // true minus (helper "numtext")
     expect(npshPairText(SI_UNITS, -1e-15, NPSHR)).toBe("below 0 m / 2.25 m");
   });
   it("the band's points where NPSHr is unknown (table cell's title) and the lowest where NPSHa decides", () => {
@@ -110,7 +110,7 @@ describe("the chart's readout and table view: NPSHa above zero that three decima
     expect(formatNpshaValue(0.0005001)).toBe("0.001"); // decision "npshone" (0.000999 read '< 0.001')
     expect(formatNpshaValue(0.001)).toBe("0.001");
     expect(formatNpshaValue(0)).toBe("0.000"); // NPSHa at zero, as the candidates table writes it (decision "npshzero")
-    expect(formatNpshaValue(-0.25)).toBe("-0.250");
+    expect(formatNpshaValue(-0.25)).toBe("−0.250"); // true minus, as fmtQ (helper "numtext")
   });
   it("the cursor's readout names NPSHa '< 0.001 m' on an NPSHa curve a hair above zero", () => {
     const npsha = [{ flow: 0, y: 1e-15 }, { flow: 0.2, y: 1e-15 }]; // m, flat just above zero (made up)

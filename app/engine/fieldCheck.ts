@@ -229,7 +229,7 @@ export function gradeCross(curve: PumpCurve | PumpCurveInput, flow: number, head
   const arm = (curveValue: number | null, measured: number, allowed: readonly [number, number]): GradeArm => {
     const deviation = curveValue !== null && curveValue > 0 ? measured / curveValue - 1 : null;
     const margin = deviation === null ? null : Math.min(deviation + allowed[0], allowed[1] - deviation);
-    // Each end to limitText.ts `gradeSlack` (1 part in 10⁸ of it, 1e-12 at the least): one judged past prints apart.
+    // Each end to limitText.ts `gradeSlack` (1 part in 10⁸ of it, of the curve's value at a 0 % side): one judged past prints apart.
     return { curveValue, deviation, allowed, pass: deviation !== null && gradeAllows(deviation, allowed[0], allowed[1]), margin };
   };
   const headArm = arm(evalCubic(c.head, flow), head, grade.head);

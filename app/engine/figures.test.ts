@@ -180,7 +180,7 @@ describe("NPSHa at or below zero with no NPSHr on the curve", () => {
     expect(below.npsh!.available).toBeLessThanOrEqual(0);
     expect(below.npsh!.status).toBe("cavitation-risk");
     const said = below.warnings.find((w) => w.code === "npsh-cavitation")!.message;
-    expect(said).toMatch(/is not above zero: cavitation risk whatever the pump \(the curve has no NPSHr at this flow\)/);
+    expect(said).toMatch(/is not above zero: cavitation risk whatever the pump \(no NPSHr at this flow: the curve publishes no NPSHr\)/); // was "(the curve has no NPSHr at this flow)"
     expect(said).not.toMatch(/below NPSHr/);
     expect(above.npsh!.status).toBe("unknown");
     expect(above.warnings.map((w) => w.code)).toContain("npsh-unknown");
@@ -198,7 +198,7 @@ describe("NPSHa at or below zero with NPSHr on the curve: read by NPSHa, as the 
     for (let i = 0; i < 200; i++) { const mid = (lo + hi) / 2; if (at(mid).npsh!.available > 0) hi = mid; else lo = mid; }
     expect(at(lo).npsh!.required).not.toBeNull();
     expect(said(lo)).toMatch(/^NPSHa -?0\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/); // old code: "… is below NPSHr … m: cavitation risk"
-    expect(said(lo - 0.2)).toMatch(/^NPSHa -0\.\d+ m is not above zero/);
+    expect(said(lo - 0.2)).toMatch(/^NPSHa −0\.\d+ m is not above zero/);
     expect(said(hi)).toMatch(/^NPSHa < 0\.001 m is below NPSHr [\d.]+ m: cavitation risk$/); // NPSHa just above zero (a hair: "< 0.001 m", decision "npshzero"; it read "1.00e-15 m")
   });
 });
@@ -217,7 +217,7 @@ describe("the margin ratio at the source: none where NPSHa ≤ 0, NPSHa given an
       expect(f.npsh!.available).toBeLessThanOrEqual(0);
       expect(f.npsh!.marginRatio).toBeNull(); // old code: NPSHa / NPSHr, ≤ 0 (e.g. -0.25 at 1 m further)
       expect(f.npsh!.status).toBe("cavitation-risk");
-      expect(inSI(f.warnings.find((w) => w.code === "npsh-cavitation")!.message)).toMatch(/^NPSHa -?\d+\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/);
+      expect(inSI(f.warnings.find((w) => w.code === "npsh-cavitation")!.message)).toMatch(/^NPSHa −?\d+\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/);
     }
   });
   it("NPSHa just above zero: the ratio NPSHa / NPSHr, positive, decides (below 1: cavitation risk below NPSHr)", () => {

@@ -18,6 +18,7 @@ import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
 import { fmtPctExact, insideEnds, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
 import { npshRatioBelow, npshRatioText } from "./npshRatio.ts";
+import { npshrStopsText } from "./npshrEnds.ts";
 
 /** Default NPSH margin ratio (lower end of ANSI/HI 9.6.1 range, from memory). */
 export const DEFAULT_NPSH_MARGIN = 1.1;
@@ -273,7 +274,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
         ? `NPSHa ${qtAboveZero("head", available, [required])} is below NPSHr ${qtLimit("head", required, [available])}: cavitation risk`
         // NPSHa at or below zero decides alone, NPSHr known or not (the liquid would boil at the inlet whatever the pump):
         // read by NPSHa, as the band's corners are, never as "below NPSHr".
-        : `NPSHa ${qtAboveZero("head", available, [])} is not above zero: cavitation risk whatever the pump${required === null ? " (the curve has no NPSHr at this flow)" : "'s NPSHr"}` });
+        : `NPSHa ${qtAboveZero("head", available, [])} is not above zero: cavitation risk whatever the pump${required === null ? ` (no NPSHr at this flow: ${npshrStopsText(c.points, flow)})` : "'s NPSHr"}` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${npshRatioText(marginRatio, requiredMargin)} is below the required ${requiredMargin}` });
     else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: required === null ? "curve has no NPSHr at this flow" : `the curve's NPSHr here, ${qt("head", required)}, is too small to judge NPSHa ${qtAboveZero("head", available, [])} against (NPSHa / NPSHr is no finite number): NPSH not judged` });
     npsh = { available, required, marginRatio, requiredMargin, status };

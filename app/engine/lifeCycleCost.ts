@@ -20,7 +20,7 @@
  * over 50 years, 17.9 %/year over 15.)
  */
 import { EngineInputError, requireFinite, requireInteger, requireNonNegative, type EngineWarning } from "./errors.ts";
-import { fmtNumExact, fmtPctLimit, fmtPctSignedExact, pastAbove } from "./quantityText.ts";
+import { fmtNumExact, fmtPctLimit, fmtPctSignedExact, pastAbove, pastBelow } from "./quantityText.ts";
 
 export const LCC_SOURCE = "present-value method (ISO 15686-5, from memory; common practice for pump life-cycle cost): LCC = purchase + Σ C₁(1+e)^(t−1)/(1+d)^t, end-of-year costs; maintenance and disposal not included";
 
@@ -63,7 +63,8 @@ export interface LifeCycleResult {
 /** A growth factor as read beside its limits: "5.6e14", "7.07", "0.19" (far from 1: powers of ten). */
 function factorText(g: number): string {
   if (g >= 1000 || g < 0.001) return g.toExponential(1).replace("e+", "e");
-  return fmtNumExact(g, [ESCALATION_PLAUSIBLE.growth, 1 / ESCALATION_PLAUSIBLE.growth]);
+  // Apart from the nearer bound only: beside 10 as well, 0.1 × (1 − 1.01e-8) read "0.1000000" (7 decimals, 10's digits).
+  return fmtNumExact(g, [g >= 1 ? ESCALATION_PLAUSIBLE.growth : 1 / ESCALATION_PLAUSIBLE.growth]);
 }
 
 /**
@@ -74,10 +75,11 @@ function escalationWarnings(escalation: number, years: number): EngineWarning[] 
   if (years < 2) return [];
   const { rate, growth } = ESCALATION_PLAUSIBLE;
   const g = (1 + escalation) ** (years - 1);
-  // A value within print rounding of its bound is the bound (1 part in 10⁸ of the rate, LIMIT_ROUNDING: fmtPctExact shows
-  // 9 significant digits beside it; 1e-9 of the growth: fmtNumExact 9 digits), so a value called beyond it prints apart.
+  // A value within print rounding of its bound is the bound (1 part in 10⁸ of it, LIMIT_ROUNDING: fmtPctExact and
+  // fmtNumExact show 9 significant digits beside it), so a value called beyond it prints apart. The growth's 1e-9 called
+  // 10 × (1 + 5e-9) "more than 10× year 1's" as "10.0000001 ×"'s neighbour (helper "numtext").
   const rateOut = pastAbove(Math.abs(escalation), rate);
-  const growthOut = g > growth * (1 + 1e-9) || g < (1 / growth) * (1 - 1e-9);
+  const growthOut = pastAbove(g, growth) || pastBelow(g, 1 / growth);
   if (!rateOut && !growthOut) return [];
   // A falling tariff's rate with the true minus "−", as its bound beside it (fmtPctSignedExact).
   const crossed = [

@@ -63,11 +63,14 @@ export const insideEnds = (x: number, min: number, max: number): boolean => !pas
 /**
  * The allowance at a grade's limit, fraction points: 1 part in 10⁸ of the limit ({@link LIMIT_ROUNDING}), so a
  * deviation judged past prints apart from the limit beside it (at 1e-12 alone, +3 % + 2e-11 was "not met" as "+3.00000000 %"),
- * and 1e-12 at the least (the readings' conversions' rounding; a 0 % side). The tolerance cross's too (fieldCheck.ts, the
- * field-check pages' cross.ts and power-grade.ts; gradePower.ts; decision "pctlimit").
+ * and 1e-12 at the least (the readings' conversions' rounding). At a 0 % side the limit is the curve's own value, and
+ * 1 part in 10⁸ of it, {@link LIMIT_ROUNDING} in fraction points, as every value judged against a limit's value: at 1e-12
+ * a reading 2e-11 under the curve was "not met, 2.00e-9 points outside" beside a measured and a curve's value that read
+ * the same to their 9 digits (helper "numtext"). The tolerance cross's too (fieldCheck.ts, the field-check pages'
+ * cross.ts and power-grade.ts; gradePower.ts; decision "pctlimit").
  * @param allowed the allowance on that side, a fraction ≥ 0 (dimensionless)
  */
-export const gradeSlack = (allowed: number): number => Math.max(1e-12, LIMIT_ROUNDING * Math.abs(allowed));
+export const gradeSlack = (allowed: number): number => (allowed === 0 ? LIMIT_ROUNDING : Math.max(1e-12, LIMIT_ROUNDING * Math.abs(allowed)));
 /**
  * Whether a deviation (fraction) lies from −below to +above, each end to its {@link gradeSlack}.
  * @param deviation measured / curve − 1 (dimensionless)

@@ -200,7 +200,7 @@ describe("fmtNum: no false zero, no negative zero", () => {
   it("a tiny non-zero value shows significant digits; a rounded zero has no sign (hand-written cases)", () => {
     // 4e-7 m³/s = 0.0004 L/s: the magnitude rule's 3 decimals would print "0.000 L/s".
     expect(renderQuantities(`⟦flow|4e-7⟧`, CHOICES["L/s"])).toBe("0.000400 L/s");
-    expect(renderQuantities(`⟦head|-0.0001⟧`, SI)).toBe("-0.000100 m");
+    expect(renderQuantities(`⟦head|-0.0001⟧`, SI)).toBe("−0.000100 m"); // true minus (helper "numtext")
     expect(fmtNum(4e-10)).toBe("4.00e-10");
     expect(fmtNum(-0)).toBe("0.000");
     expect(fmtNum(-0.0004, 3)).toBe("0.000"); // decimals asked for: a rounded zero, unsigned

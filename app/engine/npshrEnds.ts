@@ -1,6 +1,6 @@
 // Where NPSHr is read at the ends of its published column: the rounding allowance the workbench's curve (pumpCurve.ts
 // `npshrAt`) and the search's index (searchIndex.ts `evalNpshrPacked`) share, so both read NPSHr at the same flows.
-import { LIMIT_ROUNDING } from "./quantityText.ts";
+import { LIMIT_ROUNDING, qtExact, qtLimit } from "./quantityText.ts";
 
 /**
  * The rounding allowance at the NPSHr curve's ends (dimensionless, 1 part in 10⁸). NPSHr is read off the published curve
@@ -30,4 +30,23 @@ export function npshrFlow(first: number, last: number, flow: number): number {
   if (flow > last && flow <= last * (1 + NPSHR_END_ROUNDING)) return last;
   if (flow < first && flow >= first * (1 - NPSHR_END_ROUNDING)) return first;
   return flow;
+}
+
+/**
+ * Where the NPSHr column stops, for a flow that reads none (`npshrAt` null), in words with both flows (quantity tokens, each
+ * read apart from the other): "the NPSHr curve ends at ⟦flow|0.012⟧, and the pump runs past it at ⟦flow|0.0125⟧", "… starts
+ * at …, and the pump runs below it at …", "NPSHr is published at one flow only, ⟦flow|…⟧, which judges no flow" (decision
+ * "npshone"), "the curve publishes no NPSHr". The engine's words where NPSHa ≤ 0 meets no NPSHr (figures.ts), as the
+ * candidate's words name both flows (lib/projects/npshr-reach.ts; helper "numtext").
+ * @param points the curve's points as published (flow m³/s, NPSHr m where given)
+ * @param flow the flow without NPSHr, m³/s
+ */
+export function npshrStopsText(points: readonly { flow: number; npshr?: number | null }[], flow: number): string {
+  const given = points.filter((p) => p.npshr != null);
+  if (!given.length) return "the curve publishes no NPSHr";
+  const first = given[0].flow, last = given[given.length - 1].flow;
+  if (given.length === 1) return `NPSHr is published at one flow only, ${qtLimit("flow", first, [flow])}, which judges no flow`;
+  if (flow > last) return `the NPSHr curve ends at ${qtLimit("flow", last, [flow])}, and the pump runs past it at ${qtExact("flow", flow, [last])}`;
+  if (flow < first) return `the NPSHr curve starts at ${qtLimit("flow", first, [flow])}, and the pump runs below it at ${qtExact("flow", flow, [first])}`;
+  return `no NPSHr is read at ${qtExact("flow", flow, [first, last])}`;
 }

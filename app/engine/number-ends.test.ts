@@ -13,10 +13,10 @@ const US = UNIT_SYSTEMS.US, SI = UNIT_SYSTEMS.SI;
 describe("numbers from 1e9 up in the unit shown", () => {
   it("flips at LARGE_FROM: 999 999 999 whole, 1e9 in exponent form (both sides)", () => {
     expect(LARGE_FROM).toBe(1e9);
-    expect(fmtNum(999_999_999)).toBe("999999999");
+    expect(fmtNum(999_999_999)).toBe("999\u202f999\u202f999"); // grouped from 1e6 (helper "numtext")
     expect(fmtNum(1e9)).toBe("1.00e+9");
     expect(fmtNum(-1e9)).toBe("-1.00e+9");
-    expect(fmtNumExact(999_999_999, [1e9])).toBe("999999999");
+    expect(fmtNumExact(999_999_999, [1e9])).toBe("999\u202f999\u202f999");
   });
   it("a head of 1e12 m and 1e21 m in SI and US units", () => {
     expect(renderQuantities(`${qt("head", 1e12)}`, SI)).toBe("1.00e+12 m");

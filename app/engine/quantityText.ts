@@ -180,6 +180,32 @@ const TINY_SIGNIFICANT = 3;
 export const LARGE_FROM = 10 ** MAX_SIGNIFICANT;
 /** "-0.000" reads as zero: drop the sign of a rounded zero. */
 const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
+/**
+ * A quantity's number as shown with the true minus sign "−" (U+2212), as the per cents (`fmtPctSignedExact`), a refusal's
+ * number as typed (shared/format.ts `numberAsTyped`) and the field check's form write theirs: "−50 °C", where it read
+ * "-50 °C" (helper "numtext"). The quantity formatters (`fmtQuantity`, `fmtQuantityExact`, `fmtQuantityAboveZero`, so
+ * shared/units.ts `fmtQ` and its kin) and every rendered token; bare numbers (`fmtNum`) and CSV's numbers stay ASCII.
+ * The forms' reader takes "−" back (shared/decimal.ts).
+ * @param t a number as written (unitless)
+ */
+export const trueMinus = (t: string): string => t.replace(/^-(?=[\d.])/, "−");
+/**
+ * From this magnitude up to {@link LARGE_FROM}, in the unit shown, a number read as whole digits has them grouped in threes
+ * by a narrow no-break space, as a range's end and the number refused are (limitText.ts `groupThousands`; SI Brochure 9th
+ * ed. 5.4.4): "1 234 567 m", where it read "1234567 m" (helper "numtext"). Every whole digit is kept: a plain `qt` token
+ * carries 6 significant digits of the SI value, so from here its seventh digit on is that rounding ("1 234 570 m" for
+ * 1 234 567 m); `qtExact`'s keep up to 9 significant digits where they tell it from a limit. Below it, four to six digits
+ * stay ungrouped as before ("12345 m"): the whole-digit numbers of the pages' tables.
+ */
+export const GROUPED_FROM = 1e6;
+/** Whole digits grouped (GROUPED_FROM ≤ |x| < LARGE_FROM); any other text unchanged. */
+const grouped = (x: number, t: string) => (Math.abs(x) >= GROUPED_FROM && Math.abs(x) < LARGE_FROM ? groupThousands(t) : t);
+/** The significant-digit form of a non-zero number too small for its decimals ("4.00e-7", "0.000400"), with more digits while it would read as one of `others`. */
+function tinyExact(x: number, others: readonly number[]): string {
+  let p = TINY_SIGNIFICANT;
+  while (p < 12 && others.some((a) => a !== x && Number(a.toPrecision(p)) === Number(x.toPrecision(p)))) p++;
+  return x.toPrecision(p);
+}
 
 const INTEGER = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
 /** A whole number with thousands separators, e.g. 12345 → "12,345"; "—" when missing (re-exported by `app/lib/shared/format.ts`). */
@@ -188,13 +214,19 @@ export const fmtInt = (x: number | null | undefined) => (x == null || !Number.is
 /**
  * A number for reading (not a form field): fixed decimals chosen per magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3); "—" when missing.
  * A non-zero number those decimals would show as zero gets 3 significant digits instead (4e-7 → "4.00e-7",
- * 0.0004 → "0.000400", not "0.000"), and so does one from {@link LARGE_FROM} up (3.28e12 → "3.28e+12"); a rounded zero
- * never carries a minus sign ("-0.000" → "0.000").
+ * 0.0004 → "0.000400", not "0.000"), and so does one from {@link LARGE_FROM} up (3.28e12 → "3.28e+12"); from
+ * {@link GROUPED_FROM} up to it whole digits grouped in threes ("1 234 567", every whole digit kept); a rounded zero never
+ * carries a minus sign ("-0.000" → "0.000"). The minus is ASCII here; a quantity's text writes "−" ({@link trueMinus}).
  * @param x the number, in any unit
  * @param digits decimals wanted instead (count; then a small number may read as zero, but unsigned)
  */
 export function fmtNum(x: number | null | undefined, digits?: number): string {
   if (x == null || !Number.isFinite(x)) return "—";
+  return digits === undefined ? grouped(x, plainNum(x)) : plainNum(x, digits);
+}
+
+/** {@link fmtNum} without the grouping of whole digits (a range's end and the number refused are grouped by their own path). */
+function plainNum(x: number, digits?: number): string {
   if (digits === undefined && Math.abs(x) >= LARGE_FROM) return x.toPrecision(TINY_SIGNIFICANT);
   const t = x.toFixed(digits ?? decimalsFor(x));
   if (digits === undefined && x !== 0 && Number(t) === 0) return x.toPrecision(TINY_SIGNIFICANT);
@@ -216,15 +248,24 @@ export function fmtNum(x: number | null | undefined, digits?: number): string {
  */
 export function fmtNumExact(x: number | null | undefined, against: readonly (number | null | undefined)[] = [], digits?: number, limit = false, whole = false): string {
   if (x == null || !Number.isFinite(x)) return "—";
+  const t = exactText(x, against, digits, limit, whole);
+  return digits === undefined && !whole ? grouped(x, t) : t; // a range's end and the number refused: grouped by their callers
+}
+
+function exactText(x: number, against: readonly (number | null | undefined)[], digits: number | undefined, limit: boolean, whole: boolean): string {
   const base = digits ?? decimalsFor(x);
   const others = [0, ...against].filter((a): a is number => a != null && Number.isFinite(a) && a !== x);
   if (digits === undefined && !whole && Math.abs(x) >= LARGE_FROM) return fmtExpExact(x, others, TINY_SIGNIFICANT - 1); // exponent form, apart
   const shown = (v: number, d: number) => Number(v.toFixed(d)); // -0 and 0 read the same
+  // Too small for its decimals: the significant-digit form fmtNum and a plain qt token give it ("1.00e-15 m"), with more
+  // digits while it reads as one of `against`; never the run of zeros that decimals added until it is apart from zero
+  // wrote ("0.000000000000001 m"; helper "numtext"). A range's end keeps its decimals (typed back, limitText.ts).
+  if (digits === undefined && !whole && x !== 0 && shown(x, base) === 0) return tinyExact(x, others);
   const most = maxDecimals(base, [x, ...others]);
   let d = base;
   while (d < most && others.some((a) => shown(a, d) === shown(x, d))) d++;
-  if (d === base) return fmtNum(x, digits ?? (whole && Math.abs(x) >= LARGE_FROM ? 0 : undefined));
-  if (shown(x, d) === 0) return fmtNum(x); // still reads as zero: significant digits
+  if (d === base) return plainNum(x, digits ?? (whole && Math.abs(x) >= LARGE_FROM ? 0 : undefined));
+  if (shown(x, d) === 0) return plainNum(x); // still reads as zero: significant digits
   const t = x.toFixed(d);
   return unsignedZero(limit ? t.replace(/0+$/, (zeros) => zeros.slice(d - base)).replace(/\.$/, "") : t);
 }
@@ -254,7 +295,7 @@ export function fmtExpExact(x: number | null | undefined, against: readonly numb
 export function fmtQuantity(units: UnitPreset, q: Quantity, si: number | null | undefined, digits?: number): string {
   if (si == null || !Number.isFinite(si)) return "—";
   const unit = units[q];
-  return `${fmtNum(fromSI(q, unit, si), digits)} ${unitLabel(q, unit)}`;
+  return `${trueMinus(fmtNum(fromSI(q, unit, si), digits))} ${unitLabel(q, unit)}`;
 }
 
 /**
@@ -288,7 +329,7 @@ export function fmtQuantityExact(units: UnitPreset, q: Quantity, si: number | nu
   if (si == null || !Number.isFinite(si)) return "—";
   const unit = units[q];
   const shown = (v: number) => (v === si ? NaN : fromSI(q, unit, v)); // an equal value is no other value
-  return `${fmtNumExact(fromSI(q, unit, si), against.filter((a): a is number => a != null && Number.isFinite(a)).map(shown), undefined, limit, whole)} ${unitLabel(q, unit)}`;
+  return `${trueMinus(fmtNumExact(fromSI(q, unit, si), against.filter((a): a is number => a != null && Number.isFinite(a)).map(shown), undefined, limit, whole))} ${unitLabel(q, unit)}`;
 }
 
 const isQuantity = (x: string): x is Quantity => Object.prototype.hasOwnProperty.call(UNITS, x);
@@ -324,7 +365,7 @@ export function renderQuantities(text: string, units: UnitPreset): string {
       }
       if (zero) return fmtQuantityAboveZero(units, q, x, against);
       const v = fromSI(q, units[q], x); // a bound: grouped, rounded inward where it names its side (limitText.ts)
-      if (boundMark) return `${groupThousands(boundInward(fmtNumExact(v, against.map((a) => (a === x ? NaN : fromSI(q, units[q], a))), undefined, true, true), v, boundMark[1] as "min" | "max" | undefined))} ${unitLabel(q, units[q])}`;
+      if (boundMark) return `${trueMinus(groupThousands(boundInward(fmtNumExact(v, against.map((a) => (a === x ? NaN : fromSI(q, units[q], a))), undefined, true, true), v, boundMark[1] as "min" | "max" | undefined)))} ${unitLabel(q, units[q])}`;
       if (sent) return groupThousands(fmtQuantityExact(units, q, x, against, false, true)); // both whole, grouped: typed back
       return against.length ? fmtQuantityExact(units, q, x, against, limit) : fmtQuantity(units, q, x);
     } catch (e) {

@@ -21,7 +21,7 @@ describe("water outside 0–100 °C: the refusal's temperature never reads as th
     const hot = refusal(100.04);
     expect(hot).toMatch(/\(got 100\.04 °C\)/);
     const cold = refusal(-0.004);
-    expect(cold).toMatch(/\(got -0\.004 °C\)/);
+    expect(cold).toMatch(/\(got −0\.004 °C\)/);
   });
   it("the ends themselves are taken (the flip is at the end, both sides)", () => {
     expect(refusal(100)).toBeNull();

@@ -64,7 +64,7 @@ beforeAll(async () => {
 });
 afterAll(() => closeDb());
 
-const GRAVITY = /met, no pump head needed, pump stopped: the system needs -0\.\d+ m at 9\.00 m³\/h, not above 0: static head -0\.500 m \+ pipe losses 0\.\d+ m = -0\.\d+ m; gravity \(the discharge surface below the suction surface\) delivers this flow without a pump and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh \(assumed: /;
+const GRAVITY = /met, no pump head needed, pump stopped: the system needs −0\.\d+ m at 9\.00 m³\/h, not above 0: static head −0\.500 m \+ pipe losses 0\.\d+ m = −0\.\d+ m; gravity \(the discharge surface below the suction surface\) delivers this flow without a pump and a valve throttles it to the step's, so the pump is taken as stopped, 0 kWh \(assumed: /;
 const ESCALATION = /tariff escalation 100\.0 %\/year makes year 50's energy cost 5\.6e14 × year 1's \(above 15 %\/year; more than 10× year 1's\): implausible as a forecast \(rule, common practice from memory/;
 const figure = (name: string) => page.csv.find((r) => r[0] === "figures" && r[1] === name);
 

@@ -135,7 +135,7 @@ describe("shapes and sizes a caller may send", () => {
     const r = await postRaw(String(plainId), JSON.stringify({ input: withRun({ length: "__X__" }) }).replace('"__X__"', "1e400"));
     expect(errorsOf(r)).toEqual([{ field: "input.runs.0.length", pointer: "/input/runs/0/length", message: "Length must be a number; it takes from 0 to 1\u202f000\u202f000 m." }]);
     expect(errorsOf(await post(withRun({ length: 2e6 })))[0].message).toBe("Length is too high: it takes from 0 to 1\u202f000\u202f000 m, not 2\u202f000\u202f000 m; check the value and its unit.");
-    expect(errorsOf(await post(withRun({ length: -1 })))[0].message).toBe("Length is too low: it takes from 0 to 1\u202f000\u202f000 m, not -1.00 m; check the value and its unit.");
+    expect(errorsOf(await post(withRun({ length: -1 })))[0].message).toBe("Length is too low: it takes from 0 to 1\u202f000\u202f000 m, not −1.00 m; check the value and its unit.");
     expect((await postRaw(String(plainId), '{"input":{"runs":[{"length":NaN}]}}')).status).toBe(400); // not JSON
   });
   test("a bore of 1e-9 m or 6.1 mm → 400 at …/diameter with the range; 6.2 mm (the catalogue's smallest) taken", async () => {

@@ -65,9 +65,9 @@ describe("a user-defined liquid: −50 °C to 300 °C, either side of each end",
     expect((await preview(-49.99, OIL)).status).toBe(200);
     const hot = await preview(300.01, OIL);
     expect(hot.status).toBe(400);
-    expect(hot.body.errors).toEqual([{ field: "input.temperatureC", pointer: "/input/temperatureC", message: "Temperature is too high: it takes from -50 °C to 300 °C, not 300.01 °C; check the value and its unit." }]); // was "Temperature above 300 °C?"
-    const cold = await preview(-50.01, OIL);
-    expect(cold.body.errors![0].message).toBe("Temperature is too low: it takes from -50 °C to 300 °C, not -50.01 °C; check the value and its unit.");
+    expect(hot.body.errors).toEqual([{ field: "input.temperatureC", pointer: "/input/temperatureC", message: "Temperature is too high: it takes from −50 °C to 300 °C, not 300.01 °C; check the value and its unit." }]); // was "Temperature above 300 °C?"
+    const cold = await preview(-50.01, OIL); // "−50 °C", "−50.01 °C": "-" before the true minus (helper "numtext")
+    expect(cold.body.errors![0].message).toBe("Temperature is too low: it takes from −50 °C to 300 °C, not −50.01 °C; check the value and its unit.");
     expect(editorSays(300.01, true)).toBe(hot.body.errors![0].message);
   });
 });

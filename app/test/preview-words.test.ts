@@ -38,8 +38,8 @@ describe("fields outside the runs, in plain words with their pointers", () => {
     expect(await refused(without("mode"))).toEqual([{ field: "input.mode", pointer: "/input/mode", message: 'System kind (open or closed loop) is missing: send "open" or "closed-loop".' }]);
   });
   test("a static head left out: the editor's range words (was “Invalid key: Expected \"staticLow\" but received undefined”)", async () => {
-    expect(await refused(without("staticLow"))).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: "Static head at low level is missing; it takes from -1\u202f000 m to 3\u202f000 m." }]);
-    expect(await refused({ ...boosterInput(), staticLow: "ten" })).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: 'Static head at low level must be a number; it takes from -1\u202f000 m to 3\u202f000 m. Sent: "ten".' }]);
+    expect(await refused(without("staticLow"))).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: "Static head at low level is missing; it takes from −1\u202f000 m to 3\u202f000 m." }]);
+    expect(await refused({ ...boosterInput(), staticLow: "ten" })).toEqual([{ field: "input.staticLow", pointer: "/input/staticLow", message: 'Static head at low level must be a number; it takes from −1\u202f000 m to 3\u202f000 m. Sent: "ten".' }]);
   });
   test("a duty that is no object, a duty without its head, a duty past its range", async () => {
     expect(await refused({ ...boosterInput(), duty: "x" })).toEqual([{ field: "input.duty", pointer: "/input/duty", message: 'Duty point must be a group of values or empty (null). Sent: "x".' }]);

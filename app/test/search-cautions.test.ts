@@ -83,6 +83,6 @@ describe("the search row's NPSH cell where NPSHa ≤ 0 decides (the same system 
   test("no ratio and no dash for it: the lowest NPSHa and where", async () => {
     const id = await createSystem(v, projectId, "Static 39.5 m, 100 °C", { ...input(39.5), temperatureC: 100, suctionStaticHead: 0 });
     const cell = (html: string) => (/data-testid="search-npsh-\d+"[^>]*>(.*?)<\/td>/s.exec(html)?.[1] ?? "").replace(/<[^>]+>/g, "");
-    expect(cell(await pageHtml(id))).toMatch(/^NPSHa -\d+\.\d+ m at .* \(cavitation-risk\)$/);
+    expect(cell(await pageHtml(id))).toMatch(/^NPSHa −\d+\.\d+ m at .* \(cavitation-risk\)$/);
   });
 });

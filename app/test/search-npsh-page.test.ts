@@ -56,7 +56,7 @@ describe("the search page's NPSH", () => {
     // 20 °C water under one standard atmosphere holds about 10.3 m (common practice): a 12 m suction lift leaves NPSHa below zero.
     const html = await pageHtml(await npshProbeSystem(v, projectId, -12));
     expect(text(html, "search-stats")).toMatch(/ · 2 left out for NPSH at the duty \(NPSHa there at or below zero: see below\)/);
-    expect(text(html, "search-npsha")).toMatch(/^NPSHa at the duty is -\d\.\d+ m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it/);
+    expect(text(html, "search-npsha")).toMatch(/^NPSHa at the duty is −\d\.\d+ m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it/);
     expect(text(html, "search-stats")).not.toMatch(/their NPSHr at the duty is above/);
   });
 

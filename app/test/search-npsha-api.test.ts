@@ -54,7 +54,7 @@ describe("NPSHa at the duty, pumps with an NPSHr (both probes left out on either
     const b = await apiRead(withNpshr, below);
     expect(b.npshaAtDuty).toBeCloseTo(-0.001, 9); // the true value, not the 0 the search judges against
     expect(b.stats.rejectedByNpsh).toBe(2);
-    expect(b.npshaNote).toMatch(/^NPSHa at the duty is -0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it; a pump without one is not ruled out by it, and cavitates there too\.$/);
+    expect(b.npshaNote).toMatch(/^NPSHa at the duty is −0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it; a pump without one is not ruled out by it, and cavitates there too\.$/);
   });
 
   test("the page: NPSHa just above zero counts the pumps by their NPSHr, no note; at or below zero the note carries the count", async () => {
@@ -63,7 +63,7 @@ describe("NPSHa at the duty, pumps with an NPSHr (both probes left out on either
     expect(a.stats).toMatch(/ · 2 left out because their NPSHr at the duty is above the NPSHa there \((0\.001\d* m|(<|&lt;) 0\.001 m)\)/); // 1 mm to within rounding: a hair below it reads "< 0.001 m" (decision "npshzero")
     expect(a.html).not.toContain('data-testid="search-npsha"');
     const b = await pageStats(withNpshr, below);
-    expect(b.note).toMatch(/^NPSHa at the duty is -0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it/);
+    expect(b.note).toMatch(/^NPSHa at the duty is −0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. 2 pumps with an NPSHr at the duty were left out for it/);
     expect(b.stats).not.toMatch(/their NPSHr at the duty is above/);
     expect(b.stats).toMatch(/ · 2 left out for NPSH at the duty \(NPSHa there at or below zero: see below\)/);
   });
@@ -79,14 +79,14 @@ describe("NPSHa at the duty, no pump with an NPSHr (none left out)", () => {
     expect(b.stats.rejectedByNpsh).toBe(0);
     expect(b.results.length).toBeGreaterThan(0);
     expect(b.npshaAtDuty).toBeCloseTo(-0.001, 9);
-    expect(b.npshaNote).toMatch(/^NPSHa at the duty is -0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. A pump without an NPSHr at the duty is not ruled out by it, and cavitates there too\.$/);
+    expect(b.npshaNote).toMatch(/^NPSHa at the duty is −0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. A pump without an NPSHr at the duty is not ruled out by it, and cavitates there too\.$/);
   });
 
   test("the page says it with its number, though nothing was left out (it said nothing at the duty)", async () => {
     const [above, below] = await atNpsha(withoutNpshr, [0.001, -0.001]);
     expect((await pageStats(withoutNpshr, above)).html).not.toContain('data-testid="search-npsha"');
     const b = await pageStats(withoutNpshr, below);
-    expect(b.note).toMatch(/^NPSHa at the duty is -0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. A pump without an NPSHr at the duty is not ruled out by it, and cavitates there too\.$/);
+    expect(b.note).toMatch(/^NPSHa at the duty is −0\.001\d* m, at or below zero: no pump can run there without cavitating, whatever its NPSHr\. A pump without an NPSHr at the duty is not ruled out by it, and cavitates there too\.$/);
     expect(b.stats).not.toMatch(/left out/);
   });
 });

@@ -85,7 +85,7 @@ describe("the JSON export", () => {
     expect(f.result.npsh?.status).toBe("cavitation-risk"); // control: 12 m suction lift on water at 20 °C
     const body = await jsonOf(id);
     const csv = csvFigures((await selectionPages(m, id)).csv).get("verdict_npsh")?.[0];
-    expect(csv).toMatch(/NPSHa -[\d.]+ m, at or below zero, .*cavitation risk/); // control
+    expect(csv).toMatch(/NPSHa −[\d.]+ m, at or below zero, .*cavitation risk/); // control
     expect(body.verdictNpsh).toBe(csv); // old code: absent
     expect(body.verdictStart).toBeNull();
   });

@@ -37,7 +37,7 @@ beforeAll(async () => void ({ m, v, projectId } = await demoProjectFixture("Stor
 type Corruption = { name: string; corrupt: (doc: Record<string, unknown>) => string; label: string; message: RegExp; stored: string | null };
 /** Each corruption, the place it must be named by (stored-input.ts `pathLabel`) and what must be said (the schema's messages, SI). */
 const CASES: Corruption[] = [
-  { name: "a field out of range (temperature 350 °C, the schema allows -50 to 300 °C)", corrupt: (d) => JSON.stringify({ ...d, temperatureC: 350 }), label: "temperature", message: /Temperature is too high: it takes from -50 °C to 300 °C, not 350 °C; check the value and its unit\./, stored: "350 °C" },
+  { name: "a field out of range (temperature 350 °C, the schema allows -50 to 300 °C)", corrupt: (d) => JSON.stringify({ ...d, temperatureC: 350 }), label: "temperature", message: /Temperature is too high: it takes from −50 °C to 300 °C, not 350 °C; check the value and its unit\./, stored: "350 °C" },
   {
     name: "a missing field (pipe run 2 without its inner diameter)",
     corrupt: (d) => {

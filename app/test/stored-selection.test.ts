@@ -129,7 +129,7 @@ const CASES: Corruption[] = [
     message: /^Should be a number\.$/,
     stored: '"38 m"',
   },
-  { name: "a system input out of range (350 °C)", corrupt: (f) => JSON.stringify({ ...f, system: { ...f.system, input: { ...f.system.input, temperatureC: 350 } } }), label: "system, inputs, temperature", message: /^Temperature is too high: it takes from -50 °C to 300 °C, not 350 °C; check the value and its unit\.$/, stored: "350 °C" },
+  { name: "a system input out of range (350 °C)", corrupt: (f) => JSON.stringify({ ...f, system: { ...f.system, input: { ...f.system.input, temperatureC: 350 } } }), label: "system, inputs, temperature", message: /^Temperature is too high: it takes from −50 °C to 300 °C, not 350 °C; check the value and its unit\.$/, stored: "350 °C" },
   { name: "the pump missing", corrupt: ({ pump: _p, ...f }) => JSON.stringify(f), label: "pump", message: /^Missing from the stored document\.$/, stored: null },
   {
     name: "a duty-cycle step's energy as text",

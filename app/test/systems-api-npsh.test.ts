@@ -74,7 +74,7 @@ describe("NPSH in the systems read API where NPSHa ≤ 0 (the booster at 100 °C
       expect(c.result.verdict).not.toBeNull();
       expect(c.result.npsh.status).toBe("cavitation-risk");
       const note = renderUnits(verdictNpshNote(c.result.verdict, c.result.npsh) ?? "", SI_UNITS);
-      expect(note).toMatch(/NPSHa -\d+\.\d+ m, at or below zero, at .*: cavitation risk whatever the pump's NPSHr$/);
+      expect(note).toMatch(/NPSHa −\d+\.\d+ m, at or below zero, at .*: cavitation risk whatever the pump's NPSHr$/);
       expect(c.result.verdictNpsh).toBe(note);
     });
     test(`${name}: no margin ratio where NPSHa ≤ 0 (null, as the CSV's blank), NPSHa kept`, async () => {

@@ -5,7 +5,7 @@
  * `fmtQ` prints is `fmtNum` of the display value: decimals by magnitude (≥100: 0, ≥10: 1, ≥1: 2, else 3; "360", "42.4",
  * "4.20", "0.123"), a percentage to one decimal as `fmtPct`. Locale-independent (server and browser give the same text).
  */
-import { nearZeroWords } from "../../engine/quantityText.ts";
+import { nearZeroWords, trueMinus } from "../../engine/quantityText.ts";
 import { fmtNum, fmtNumExact } from "../../lib/shared/units.ts";
 
 /** A panel kind's value (display unit: efficiency in %). */
@@ -16,7 +16,7 @@ type Kind = "head" | "efficiency" | "power" | "npsh";
  * @param v the value in its display unit
  */
 export function formatValue(v: number | null | undefined): string {
-  return fmtNum(v);
+  return trueMinus(fmtNum(v)); // "−" as fmtQ writes it (quantityText.ts `trueMinus`)
 }
 
 /**
@@ -36,7 +36,7 @@ export function formatKindValue(kind: Kind, v: number | null | undefined): strin
  * @param v NPSHa in the chart's NPSH unit (m or ft)
  */
 export function formatNpshaValue(v: number | null | undefined): string {
-  return (v != null && nearZeroWords(v)) || fmtNumExact(v, [0]);
+  return (v != null && nearZeroWords(v)) || trueMinus(fmtNumExact(v, [0]));
 }
 
 /**

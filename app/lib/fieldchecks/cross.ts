@@ -65,6 +65,19 @@ export function armDeviationText(a: CrossArm): string {
 }
 
 /**
+ * The gap between an arm's deviation and its nearer end, percentage points, to the decimals its deviation is printed with
+ * beside the allowance ("+5.00000006 %" → "0.00000006 points outside"), never in exponent form where the deviation is not
+ * ("6.00e-8 points"): a gap judged outside is past the end by more than `gradeSlack`, 1 part in 10⁸ of the allowance (of
+ * the curve's value at a 0 % side), which those decimals show.
+ * @param margin fraction points inside (negative: outside)
+ * @param deviation the deviation as printed (`armDeviationText`)
+ */
+function gapText(margin: number, deviation: string): string {
+  const decimals = /\.(\d+) %$/.exec(deviation)?.[1].length ?? 1;
+  return fmtPctExact(Math.abs(margin), [], decimals).replace(" %", "");
+}
+
+/**
  * Formats a flow (m³/s) or a head (m) in the reader's units; with `against`, the values it is judged beside, with the
  * decimals that keep it apart from them (`fmtQExact`; `limit`: the curve's value, its added zeros dropped).
  */
@@ -87,7 +100,7 @@ export function crossSentences(x: CrossExplanation, fmt: { flow: CrossFormat; he
     if (a.deviation === null || a.margin === null) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at} — not met (off the curve).`;
     // On the edge within the rounding allowance: met, and said with the limit's own number (never "met, … outside").
     if (edgeMet) return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${armDeviationText(a)} (allowed ${tol(a.allowed)}) — met, at the limit (the allowance includes its edge).`;
-    const by = `${fmtPctExact(Math.abs(a.margin)).replace(" %", "")} points ${a.margin >= 0 ? "inside" : "outside"}`;
+    const by = `${gapText(a.margin, armDeviationText(a))} points ${a.margin >= 0 ? "inside" : "outside"}`;
     return `${a.arm === "head" ? "Head" : "Flow"} arm: ${at}; the measured ${meas} is ${armDeviationText(a)} (allowed ${tol(a.allowed)}) — ${a.pass ? "met" : "not met"}, ${by}.`;
   };
   out.push(line(x.head), line(x.flow));

@@ -68,27 +68,25 @@ const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], t
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
 const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
 
-/** Below this (a fraction, 0.000001 percentage points) a deviation past its allowance prints with the allowance's digits. */
-const UNSEEN = 1e-8;
-
 /**
  * A deviation against its allowance as judged (power: above the curve's, side "+"; efficiency: below, side "−"), e.g.
  * "+3.5 % ≤ +4 % allowed"; on the edge within the rounding allowance "+4 % = +4 % allowed, at the limit (the allowance
- * includes its edge)" (it printed "+4.000000 % ≤ +4 %"); past it by less than the digits show, "(past it by under
- * 0.000001 points)" (it printed "+4.000000 % > +4 %" with nothing to tell why).
+ * includes its edge)" (it printed "+4.000000 % ≤ +4 %"). A deviation judged past its allowance is past it by more than
+ * `gradeSlack` (1 part in 10⁸ of it), which the per cent's own digits show (pctText.ts `fmtPctExact`: "+4.00000005 % >
+ * +4 % allowed"); no words for it (it added "(past it by under 0.000001 points)", redundant beside those digits).
  */
 function compared(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−", ofIt = ""): string {
   const allowed = `${allowance(x.allowed, side)} allowed`;
   const edge = edgeOf(x, side);
   if (edge === "at") return `${allowance(x.allowed, side)}${ofIt} = ${allowed}, at the limit (the allowance includes its edge)`;
   const sign = side === "+" ? (x.pass ? "≤" : ">") : x.pass ? "≥" : "<";
-  return `${signed(x.deviation, x.allowed)}${ofIt} ${sign} ${allowed}${edge === "unseen" ? " (past it by under 0.000001 points)" : ""}`;
+  return `${signed(x.deviation, x.allowed)}${ofIt} ${sign} ${allowed}`;
 }
 
-/** "at": met on the allowance within the rounding allowance; "unseen": missed by less than the printed digits show; else null. */
-function edgeOf(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−"): "at" | "unseen" | null {
+/** "at": met on the allowance within the rounding allowance (`gradeSlack`); else null. */
+function edgeOf(x: GradeLimitCheck & { deviation: number; pass: boolean }, side: "+" | "−"): "at" | null {
   const margin = side === "+" ? x.allowed - x.deviation : x.deviation + x.allowed; // inside ≥ 0
-  return x.pass && Math.abs(margin) <= gradeSlack(x.allowed) ? "at" : !x.pass && -margin < UNSEEN ? "unseen" : null;
+  return x.pass && Math.abs(margin) <= gradeSlack(x.allowed) ? "at" : null;
 }
 
 /**
@@ -250,7 +248,7 @@ export function powerGradeSummary(r: { grade: GradeWords; powerGrade?: PowerGrad
     if (state === "within") return `${name} ${signed(x.deviation, x.allowed)} as read (${allowance(x.allowed, sign)} allowed, ${withinWords(x, xLow!, pg.accuracy!, sign, true)})`;
     const edge = edgeOf({ ...x, deviation: x.deviation, pass: x.pass }, sign);
     const shown = edge === "at" ? allowance(x.allowed, sign) : signed(x.deviation, x.allowed);
-    return `${name} ${shown} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? (edge === "at" ? "met, at the limit" : "met") : edge === "unseen" ? "not met, past it by under 0.000001 points" : "not met"})`;
+    return `${name} ${shown} (${allowance(x.allowed, sign)} allowed, ${state === "met" ? (edge === "at" ? "met, at the limit" : "met") : "not met"})`;
   };
   return `Against grade ${r.grade.id}'s power and efficiency limits: ${[power ? part("shaft power", power, low?.power ?? null, "+") : null, efficiency ? part("pump efficiency", efficiency, low?.efficiency ?? null, "−") : null].filter(Boolean).join(", ")}${accuracyClause(pg, pg.check)}.`;
 }

@@ -168,7 +168,7 @@ describe("downhill: the system needs no pump head at the duty flow (invented cur
     for (const method of ["speed", "trim"] as const) {
       const r = evaluateCandidate(input(-3 - friction), set, { ...DEFAULT_ADJUSTMENT, method });
       expect(r.ratio).toBe(1);
-      expect(inSI(r.ratioNote!)).toMatch(/^not solved: the system's head at the duty flow 36\.0 m³\/h, -3\.00 m at most lift, aged pipe .* is not above zero \(static head -\d+\.\d+ m \+ pipe losses \d+\.\d+ m = -3\.00 m; gravity \(the discharge surface below the suction surface\) delivers the duty flow without a pump\), so there is no head to/);
+      expect(inSI(r.ratioNote!)).toMatch(/^not solved: the system's head at the duty flow 36\.0 m³\/h, −3\.00 m at most lift, aged pipe .* is not above zero \(static head −\d+\.\d+ m \+ pipe losses \d+\.\d+ m = −3\.00 m; gravity \(the discharge surface below the suction surface\) delivers the duty flow without a pump\), so there is no head to/);
       expect(r.verdict).not.toBeNull();
     }
   });
@@ -178,7 +178,7 @@ describe("downhill: the system needs no pump head at the duty flow (invented cur
     expect(down.governingHead).toBeLessThan(0);
     expect(down.difference).toBeNull();
     expect(down.differs).toBe(true);
-    expect(inSI(down.message)).toMatch(/^The system needs no pump head at 36\.0 m³\/h: its head there at most lift, aged pipe is static head -\d+\.\d+ m \+ pipe losses \d+\.\d+ m = -0\.010 m, not above zero .* Gravity \(the discharge surface below the suction surface\) delivers the duty flow/);
+    expect(inSI(down.message)).toMatch(/^The system needs no pump head at 36\.0 m³\/h: its head there at most lift, aged pipe is static head −\d+\.\d+ m \+ pipe losses \d+\.\d+ m = −0\.010 m, not above zero .* Gravity \(the discharge surface below the suction surface\) delivers the duty flow/);
     const up = evaluateSystem(input(-friction + 0.01)).dutyCheck!;
     expect(up.governingHead).toBeGreaterThan(0);
     expect(up.difference!).toBeGreaterThan(0); // the typed 1 m is above the system's 0.01 m: a positive difference

@@ -34,8 +34,8 @@ describe("the editor's form, SI units", () => {
   it("static head: −1000 m and 3000 m taken, −1000.01 m and 3000.01 m refused at the field typed", () => {
     expect(said({ staticLow: "-1000" })).toBe("taken");
     expect(said({ staticLow: "3000", staticHigh: "3000" })).toBe("taken");
-    expect(said({ staticLow: "-1000.01" })).toBe(`staticLow: Static head at low level is too low: it takes from -1\u202f000 m to 3\u202f000 m, not -1\u202f000.01 m;${check}`);
-    expect(said({ staticLow: "12", staticHigh: "3000.01" })).toBe(`staticHigh: Static head at high level is too high: it takes from -1\u202f000 m to 3\u202f000 m, not 3\u202f000.01 m;${check}`);
+    expect(said({ staticLow: "-1000.01" })).toBe(`staticLow: Static head at low level is too low: it takes from −1\u202f000 m to 3\u202f000 m, not −1\u202f000.01 m;${check}`);
+    expect(said({ staticLow: "12", staticHigh: "3000.01" })).toBe(`staticHigh: Static head at high level is too high: it takes from −1\u202f000 m to 3\u202f000 m, not 3\u202f000.01 m;${check}`);
     expect(said({ staticLow: "1e9", staticHigh: "1e9" })).toMatch(/^staticLow: Static head at low level is too high: .* \| staticHigh: Static head at high level is too high: /); // was taken
   });
   it("duty flow: 0.036 m³/h (the end as shown: 9.999999999999999e-6 m³/s after the conversion) and 360000 m³/h taken; 0.0359 and 360001 refused", () => {
@@ -51,7 +51,7 @@ describe("the editor's form, SI units", () => {
     expect(said({ dutyHead: "5000.1" })).toBe(`dutyHead: Duty head is too high: it takes from 0.1 m to 5\u202f000 m, not 5\u202f000.1 m;${check}`);
   });
   it("blank: a static head asks for its value with the range; a duty left blank on both fields is no duty", () => {
-    expect(said({ staticLow: "" })).toBe("staticLow: Enter the static head at low level; it takes from -1\u202f000 m to 3\u202f000 m.");
+    expect(said({ staticLow: "" })).toBe("staticLow: Enter the static head at low level; it takes from −1\u202f000 m to 3\u202f000 m.");
     expect(read({ dutyFlow: "", dutyHead: "" }).input!.duty).toBeNull();
   });
 });
@@ -59,9 +59,9 @@ describe("the editor's form, SI units", () => {
 describe("the editor's form, US units: the range in ft and gpm", () => {
   it("static head: 9842.5 ft taken, 9842.6 ft refused; −3280.8 ft taken, −3280.9 ft refused", () => {
     expect(said({ staticLow: "9842.5", staticHigh: "9842.5" }, US_UNITS)).toBe("taken");
-    expect(said({ staticLow: "40", staticHigh: "9842.6" }, US_UNITS)).toBe(`staticHigh: Static head at high level is too high: it takes from -3\u202f280 ft to 9\u202f842.5 ft, not 9\u202f842.6 ft;${check}`);
+    expect(said({ staticLow: "40", staticHigh: "9842.6" }, US_UNITS)).toBe(`staticHigh: Static head at high level is too high: it takes from −3\u202f280 ft to 9\u202f842.5 ft, not 9\u202f842.6 ft;${check}`);
     expect(said({ staticLow: "-3280.8" }, US_UNITS)).toBe("taken");
-    expect(said({ staticLow: "-3280.9" }, US_UNITS)).toBe(`staticLow: Static head at low level is too low: it takes from -3\u202f280.8 ft to 9\u202f842 ft, not -3\u202f280.9 ft;${check}`);
+    expect(said({ staticLow: "-3280.9" }, US_UNITS)).toBe(`staticLow: Static head at low level is too low: it takes from −3\u202f280.8 ft to 9\u202f842 ft, not −3\u202f280.9 ft;${check}`);
   });
   it("duty flow: 0.1586 gpm and 1585032 gpm taken; 0.1584 gpm and 1585033 gpm refused", () => {
     expect(said({ dutyFlow: "0.1586" }, US_UNITS)).toBe("taken");
@@ -86,8 +86,8 @@ describe("the preview API's body (SI numbers), refused in the same words with it
   it("static head at both ends", () => {
     expect(preview({ staticLow: -1000 })).toBe("taken");
     expect(preview({ staticLow: 3000, staticHigh: 3000 })).toBe("taken");
-    expect(preview({ staticLow: -1000.01 })).toBe(`/input/staticLow: Static head at low level is too low: it takes from -1\u202f000 m to 3\u202f000 m, not -1\u202f000.01 m;${check}`);
-    expect(preview({ staticHigh: 3000.01 })).toBe(`/input/staticHigh: Static head at high level is too high: it takes from -1\u202f000 m to 3\u202f000 m, not 3\u202f000.01 m;${check}`);
+    expect(preview({ staticLow: -1000.01 })).toBe(`/input/staticLow: Static head at low level is too low: it takes from −1\u202f000 m to 3\u202f000 m, not −1\u202f000.01 m;${check}`);
+    expect(preview({ staticHigh: 3000.01 })).toBe(`/input/staticHigh: Static head at high level is too high: it takes from −1\u202f000 m to 3\u202f000 m, not 3\u202f000.01 m;${check}`);
   });
   it("duty flow and head at both ends", () => {
     expect(preview({ duty: { flow: 1e-5, head: 0.1 } })).toBe("taken");

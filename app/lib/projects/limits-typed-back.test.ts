@@ -75,7 +75,7 @@ describe("the ends that were printed outside the range (old words beside the new
     expect(Object.keys(errorsOf({ "run.0.diameter": "196.86" }, US_UNITS))).toEqual(["run.0.diameter"]);
   });
   it("US: static head −3 280 ft to 9 842 ft (was −3,281 ft to 9,843 ft); 9842.52 ft refused, 9842.51 ft taken", () => {
-    expect(printedEnds(renderUnits(outOfRange(STATIC_LOW_RANGE, 1e5), US_UNITS))).toEqual(["-3\u202f280", "9\u202f842"]);
+    expect(printedEnds(renderUnits(outOfRange(STATIC_LOW_RANGE, 1e5), US_UNITS))).toEqual(["−3\u202f280", "9\u202f842"]);
     expect(errorsOf({ staticLow: "40", staticHigh: "9842.51" }, US_UNITS)).toEqual({});
     expect(Object.keys(errorsOf({ staticLow: "40", staticHigh: "9842.52" }, US_UNITS))).toEqual(["staticHigh"]);
   });

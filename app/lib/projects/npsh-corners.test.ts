@@ -95,8 +95,8 @@ describe("NPSHa at or below zero: a cavitation risk whatever the pump, NPSHr kno
     expect(lift(hi + 1e-6).npsh.status).toBe("unknown");
     const deep = lift(-11);
     expect(deep.npsh.status).toBe("cavitation-risk");
-    expect(npshLowestText(SI_UNITS, deep.npsh)).toMatch(/^NPSHa -1\.\d+ m at (least|most) lift, (new|aged) pipe$/);
-    expect(deep.warnings.some((w) => /^NPSH at .*: NPSHa -1\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/.test(inSI(w)))).toBe(true);
+    expect(npshLowestText(SI_UNITS, deep.npsh)).toMatch(/^NPSHa −1\.\d+ m at (least|most) lift, (new|aged) pipe$/);
+    expect(deep.warnings.some((w) => /^NPSH at .*: NPSHa −1\.\d+ m is not above zero: cavitation risk whatever the pump's NPSHr$/.test(inSI(w)))).toBe(true);
   });
 
   it("the system warns when NPSHa at zero flow is ≤ 0 (p_surface − p_vapour ≤ −ρ g z): flips at the suction head that makes it 0", () => {
@@ -106,12 +106,12 @@ describe("NPSHa at or below zero: a cavitation risk whatever the pump, NPSHr kno
     const warned = (z: number) => evaluateSystem({ ...base, suctionStaticHead: z }).warnings.filter((w) => w.startsWith("NPSH available is"));
     expect(warned(zStar + 1e-6)).toEqual([]);
     const [w] = warned(zStar - 1e-6);
-    const m = /^NPSH available is (below 0) m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 2\.34 kPa is ([\d.]+) kPa, not above −ρ g z_suction ([\d.]+) kPa for the suction static head -10\.\d m\./.exec(inSI(w));
+    const m = /^NPSH available is (below 0) m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 2\.34 kPa is ([\d.]+) kPa, not above −ρ g z_suction ([\d.]+) kPa for the suction static head −10\.\d m\./.exec(inSI(w));
     expect(m, inSI(w)).toBeTruthy();
     expect(Number(m![2])).toBeLessThan(Number(m![3])); // the pair reads apart, in the order of its values
     // A liquid whose vapour pressure is above the surface pressure, flooded 2 m: the system says so.
     const volatile = evaluateSystem({ ...base, suctionStaticHead: 2, fluid: { kind: "custom", name: "volatile", density: 700, dynamicViscosity: 0.0005, vaporPressure: 200000 } });
-    expect(volatile.warnings.map(inSI).find((x) => x.startsWith("NPSH available"))).toMatch(/^NPSH available is -12\.\d+ m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 200 kPa is -98\.7 kPa, not above −ρ g z_suction -13\.7 kPa/);
+    expect(volatile.warnings.map(inSI).find((x) => x.startsWith("NPSH available"))).toMatch(/^NPSH available is −12\.\d+ m already at zero flow, not above zero: the surface pressure 101 kPa less the vapour pressure 200 kPa is −98\.7 kPa, not above −ρ g z_suction −13\.7 kPa/);
   });
 });
 

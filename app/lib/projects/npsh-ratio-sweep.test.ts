@@ -84,11 +84,11 @@ describe("every surface, live and frozen before (negative ratios kept then)", ()
       expect(csvFigure(r, z, "npsh_margin_ratio")).toBe("");
       expect(Number(csvFigure(r, z, "npsh_available"))).toBeLessThanOrEqual(0);
       const cells = tableCells(r);
-      expect(cells["NPSH margin"]).toMatch(/^NPSHa (-?\d+\.\d+|below 0) m, at or below zero \(cavitation-risk\)$/); // a hair below zero "below 0 m" (decision "npshone")
-      expect(cells["NPSH margin over the band"]).toMatch(/NPSHa (-?\d+\.\d+|below 0) m at [^(]*\(cavitation-risk\)$/); // ratios only where NPSHa > 0
+      expect(cells["NPSH margin"]).toMatch(/^NPSHa (−?\d+\.\d+|below 0) m, at or below zero \(cavitation-risk\)$/); // a hair below zero "below 0 m" (decision "npshone")
+      expect(cells["NPSH margin over the band"]).toMatch(/NPSHa (−?\d+\.\d+|below 0) m at [^(]*\(cavitation-risk\)$/); // ratios only where NPSHa > 0
       expect(cells["NPSH margin over the band"]).not.toMatch(NO_RATIO_TEXT);
       const note = npshNoteOf(r, SI_UNITS)!;
-      expect(note).toMatch(/NPSHa (-?\d+\.\d+|below 0) m, at or below zero/);
+      expect(note).toMatch(/NPSHa (−?\d+\.\d+|below 0) m, at or below zero/);
       expect(note).not.toMatch(/NPSHa \/ NPSHr/);
       const label = candidateSeries({ id: 1, curveSetId: 1, label: "P", library: "L", adjustment: DEFAULT_ADJUSTMENT, result: r, error: null, energy: null } as never, 0, SI_UNITS)!.label;
       expect(label).not.toMatch(NO_RATIO_TEXT);

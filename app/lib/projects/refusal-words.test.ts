@@ -50,7 +50,7 @@ describe("hours: 0 to 8 784 h a year, either side", () => {
 describe("the stored schema's temperature (any liquid, −50 °C to 300 °C)", () => {
   it("300 taken, 300.01 refused with the range and the value (was “Temperature above 300 °C?”)", () => {
     expect(inputIssue({ temperatureC: 300, fluid: { kind: "custom", name: "Oil", density: 900, dynamicViscosity: 0.01, vaporPressure: 0 } })).toBe("taken");
-    expect(inputIssue({ temperatureC: 300.01 })).toBe("Temperature is too high: it takes from -50 °C to 300 °C, not 300.01 °C; check the value and its unit.");
-    expect(inputIssue({ temperatureC: -50.01 })).toBe("Temperature is too low: it takes from -50 °C to 300 °C, not -50.01 °C; check the value and its unit.");
+    expect(inputIssue({ temperatureC: 300.01 })).toBe("Temperature is too high: it takes from −50 °C to 300 °C, not 300.01 °C; check the value and its unit.");
+    expect(inputIssue({ temperatureC: -50.01 })).toBe("Temperature is too low: it takes from −50 °C to 300 °C, not −50.01 °C; check the value and its unit.");
   });
 });

@@ -43,7 +43,7 @@ describe("a suction tank at or below the vapour pressure", () => {
     const f = fluidOf(base);
     const w = boilingWords({ ...base, suctionSurfacePressure: f.vaporPressure - 10_000 })[0];
     const term = -10_000 / (f.density * 9.80665);
-    expect(inSI(w)).toContain(`(p − p_vapour)/(ρ g) ${term.toFixed(2)} m`);
+    expect(inSI(w)).toContain(`(p − p_vapour)/(ρ g) ${term.toFixed(2).replace("-", "−")} m`);
   });
 });
 

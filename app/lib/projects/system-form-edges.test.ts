@@ -25,7 +25,7 @@ describe("a size not in the chosen pipe table", () => {
   it("a typed bore that is no number keeps its own message alone too; a roughness refused for itself is still said", () => {
     expect(read({ "run.0.diameter": "abc" }).errors).toEqual({ "run.0.diameter": "Inner diameter must be a number; it takes from 6.2 mm to 5\u202f000 mm (the smallest bore a pipe table of the catalogue lists: Steel tube EN 10255, medium (M) DN6)." });
     const r = read({ "run.0.diameter": "abc", "run.0.roughness": "-1" });
-    expect(r.errors["run.0.roughness"]).toBe("Roughness is too low: it takes from 0 to 50 mm, not -1.00 mm; check the value and its unit."); // with its range (run-ranges.ts)
+    expect(r.errors["run.0.roughness"]).toBe("Roughness is too low: it takes from 0 to 50 mm, not −1.00 mm; check the value and its unit."); // with its range (run-ranges.ts)
   });
 });
 

@@ -71,7 +71,7 @@ describe("huge values in US units", () => {
     expect(read({ "run.0.length": "3280839.9" }, US_UNITS).errors).toEqual({}); // the end as printed, typed back: taken
     expect(read({ "run.0.length": "3280839" }, US_UNITS).errors).toEqual({});
     expect(read({ "run.0.length": "1e400" }, US_UNITS).errors).toEqual({ "run.0.length": "Length must be a number; it takes from 0 to 3\u202f280\u202f839 ft." });
-    expect(read({ "run.0.length": "-1" }, US_UNITS).errors).toEqual({ "run.0.length": "Length is too low: it takes from 0 to 3\u202f280\u202f839 ft, not -1.00 ft; check the value and its unit." });
+    expect(read({ "run.0.length": "-1" }, US_UNITS).errors).toEqual({ "run.0.length": "Length is too low: it takes from 0 to 3\u202f280\u202f839 ft, not −1.00 ft; check the value and its unit." });
   });
   it("roughness past 50 mm (1.97 in) and extra ΣK past 10000 are refused with their ranges (extra ΣK had valibot's words)", () => {
     expect(read({ "run.0.roughness": "2", "run.0.agedRoughness": "2", "run.0.diameter": "40" }, US_UNITS).errors).toEqual({

@@ -39,20 +39,20 @@ describe("a pump that meets the duty while NPSHa is at or below zero (default sy
     expect(r.npsh.marginRatio).toBeNull();
     const lowest = Math.min(...r.npsh.judgedAt!.map((p) => p.available!));
     expect(r.npsh.available).toBe(lowest);
-    expect(npshLowestText(SI_UNITS, r.npsh)).toMatch(/^NPSHa -0\.\d+ m at least lift, aged pipe$/);
+    expect(npshLowestText(SI_UNITS, r.npsh)).toMatch(/^NPSHa −0\.\d+ m at least lift, aged pipe$/);
     expect(npshPointsText(SI_UNITS, r.npsh)).not.toMatch(/ -0\.\d+(;|$)/); // no ratio of a negative NPSHa
     expect(r.warnings.map(inSI)).toContain(`NPSH at least lift, aged pipe: NPSHa ${renderUnits(`⟦head|${lowest}|0⟧`, SI_UNITS)} is not above zero: cavitation risk whatever the pump's NPSHr`);
     expect(r.warnings.join(" ")).not.toMatch(/margin ratio -/);
   });
   it("the candidates table qualifies 'meets the duty' on the verdict's line, with NPSHa and the corner", () => {
-    expect(verdictCell(table(r))).toMatch(/^meets the duty — but NPSHa -0\.\d+ m, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr$/);
-    expect(verdictCell(table(r, US_UNITS))).toMatch(/^meets the duty — but NPSHa -0\.\d+ ft, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr$/);
-    expect(table(r)).toMatch(/NPSHa -0\.\d+ m, at or below zero \(cavitation-risk\)/); // the design point's NPSH margin cell: no ratio
+    expect(verdictCell(table(r))).toMatch(/^meets the duty — but NPSHa −0\.\d+ m, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr$/);
+    expect(verdictCell(table(r, US_UNITS))).toMatch(/^meets the duty — but NPSHa −0\.\d+ ft, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr$/);
+    expect(table(r)).toMatch(/NPSHa −0\.\d+ m, at or below zero \(cavitation-risk\)/); // the design point's NPSH margin cell: no ratio
   });
   it("the chart's label and the CSV say it too", () => {
     expect(candidateSeries({ id: 1, curveSetId: 1, label: "P", library: "L", adjustment: DEFAULT_ADJUSTMENT, result: r, error: null }, 0, SI_UNITS)!.label).toBe("P — meets the duty, but NPSH cavitation risk at least lift, aged pipe");
     const f = { system: { input: boiling() }, pump: { library: { traced: null } }, adjustment: DEFAULT_ADJUSTMENT, result: r, energy: null } as unknown as FrozenSelection;
-    expect(selectionCsv(1, "t", f)).toMatch(/figures,verdict_npsh,"?but NPSHa -0\.\d+ m, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr"?,/);
+    expect(selectionCsv(1, "t", f)).toMatch(/figures,verdict_npsh,"?but NPSHa −0\.\d+ m, at or below zero, at least lift, aged pipe: cavitation risk whatever the pump's NPSHr"?,/);
   });
   it("the NPSH rule says the suction level is the one entered at every corner", () => {
     expect(inSI(r.npsh.rule)).toContain("at each corner of the band (least lift, new pipe; least lift, aged pipe; most lift, new pipe; most lift, aged pipe), NPSHa at each with the suction static head as entered (0.000 m), the same at every corner");

@@ -5,7 +5,9 @@
 
 /**
  * A number for reading (fixed decimals per magnitude) and a fraction as a percentage: the engine's, so its messages read the same;
- * their `…Exact` forms for a number shown beside the limits it was judged against.
+ * their `…Exact` forms for a number shown beside the limits it was judged against. From 1e6 to 1e9 whole digits grouped by a
+ * narrow no-break space ("1 234 567"), from 1e9 exponent form, a value too small for its decimals 3 significant digits
+ * ("1.00e-15"): quantityText.ts `GROUPED_FROM`, `LARGE_FROM` (decision "numtext").
  */
 export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText";
 

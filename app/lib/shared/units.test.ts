@@ -107,7 +107,7 @@ describe("a reading and its limit as tokens of each other (qtExact, qtLimit)", (
     expect(fmtNumExact(1.5, [1, 1.1], 2)).toBe("1.50");
     expect(fmtNumExact(100, [99.96])).toBe("100.00");
     expect(fmtNumExact(100, [99.96], undefined, true)).toBe("100");
-    expect(fmtNumExact(-0.00004, [])).toBe("-0.00004"); // not "-0.000"
+    expect(fmtNumExact(-0.00004, [])).toBe("-0.0000400"); // not "-0.000"; fmtNum's 3 significant digits (helper "numtext": was "-0.00004")
     expect(fmtNumExact(null, [1])).toBe("—");
   });
 });

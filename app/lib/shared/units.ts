@@ -88,8 +88,9 @@ export const fmtQAboveZero = fmtQuantityAboveZero;
 
 /**
  * A value whose zero is a reading of its own (a pressure difference between two surfaces: none at all, or some): exactly
- * zero as "0 kPa", never "0.000 kPa" as if rounded; any other value with the decimals it needs not to read as zero
- * ("0.0000001 kPa", no exponent down to 20 decimals), else as {@link fmtQ}.
+ * zero as "0 kPa", never "0.000 kPa" as if rounded; any other value read apart from zero as {@link fmtQExact} writes it,
+ * a value too small for its decimals in the significant-digit form every tiny number takes ("1.00e-7 kPa"; it was
+ * "0.0000001 kPa" where a plain token read "1.00e-7 kPa": decision "numtext"), else as {@link fmtQ}.
  * @param u the reader's units
  * @param q physical quantity (unitless id)
  * @param si the value in SI
