@@ -168,6 +168,17 @@ describe("field check", () => {
   });
 });
 
+describe("NPSHa above zero where the NPSHr column has stopped: the engine's caution says where", () => {
+  // Invented curve: NPSHr published from 0 to 0.02 m³/s only; the pump run at 0.025 m³/s. NPSHa from a flooded suction
+  // (common practice: (p_s − p_v)/(ρg) + z_s − h_loss, well above zero here).
+  const pts = [0, 0.01, 0.02, 0.03].map((q, i) => ({ flow: q, head: 40 - 10000 * q * q, efficiency: [0, 0.6, 0.75, 0.7][i], npshr: q <= 0.02 ? 2 + 100 * q : null }));
+  it("past the NPSHr column's last flow: both flows named (was the bare 'curve has no NPSHr at this flow')", () => {
+    const f = operatingFigures({ curve: createPumpCurve({ points: pts }), flow: 0.025, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: 2, suctionLoss: 0 } });
+    expect(f.npsh!.status).toBe("unknown");
+    expect(f.warnings.find((w) => w.code === "npsh-unknown")!.message).toBe("NPSH not judged: no NPSHr at this flow (the NPSHr curve ends at ⟦flow|0.02|limit:0.025⟧, and the pump runs past it at ⟦flow|0.025|0.02⟧)");
+  });
+});
+
 describe("NPSHa at or below zero with no NPSHr on the curve", () => {
   // NPSHa = (p_s − p_v)/(ρg) + z_s − h_loss (common practice): 101 325 Pa at the surface, 20 °C water, a suction lift
   // around 10.3 m puts it at zero.
@@ -184,6 +195,8 @@ describe("NPSHa at or below zero with no NPSHr on the curve", () => {
     expect(said).not.toMatch(/below NPSHr/);
     expect(above.npsh!.status).toBe("unknown");
     expect(above.warnings.map((w) => w.code)).toContain("npsh-unknown");
+    // Above zero the engine's own words say where NPSHr stops too (was the bare "curve has no NPSHr at this flow").
+    expect(above.warnings.find((w) => w.code === "npsh-unknown")!.message).toBe("NPSH not judged: no NPSHr at this flow (the curve publishes no NPSHr)");
   });
 });
 

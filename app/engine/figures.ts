@@ -276,7 +276,7 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
         // read by NPSHa, as the band's corners are, never as "below NPSHr".
         : `NPSHa ${qtAboveZero("head", available, [])} is not above zero: cavitation risk whatever the pump${required === null ? ` (no NPSHr at this flow: ${npshrStopsText(c.points, flow)})` : "'s NPSHr"}` });
     else if (status === "low-margin") warnings.push({ code: "npsh-low-margin", message: `NPSH margin ratio ${npshRatioText(marginRatio, requiredMargin)} is below the required ${requiredMargin}` });
-    else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: required === null ? "curve has no NPSHr at this flow" : `the curve's NPSHr here, ${qt("head", required)}, is too small to judge NPSHa ${qtAboveZero("head", available, [])} against (NPSHa / NPSHr is no finite number): NPSH not judged` });
+    else if (status === "unknown") warnings.push({ code: "npsh-unknown", message: required === null ? `NPSH not judged: no NPSHr at this flow (${npshrStopsText(c.points, flow)})` : `the curve's NPSHr here, ${qt("head", required)}, is too small to judge NPSHa ${qtAboveZero("head", available, [])} against (NPSHa / NPSHr is no finite number): NPSH not judged` });
     npsh = { available, required, marginRatio, requiredMargin, status };
   }
 
