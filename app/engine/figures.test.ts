@@ -171,7 +171,7 @@ describe("field check", () => {
 describe("NPSHa above zero where the NPSHr column has stopped: the engine's caution says where", () => {
   // Invented curve: NPSHr published from 0 to 0.02 m³/s only; the pump run at 0.025 m³/s. NPSHa from a flooded suction
   // (common practice: (p_s − p_v)/(ρg) + z_s − h_loss, well above zero here).
-  const pts = [0, 0.01, 0.02, 0.03].map((q, i) => ({ flow: q, head: 40 - 10000 * q * q, efficiency: [0, 0.6, 0.75, 0.7][i], npshr: q <= 0.02 ? 2 + 100 * q : null }));
+  const pts = [0, 0.01, 0.02, 0.03].map((q, i) => ({ flow: q, head: 40 - 10000 * q * q, efficiency: [0, 0.6, 0.75, 0.7][i], npshr: q <= 0.02 ? 2 + 100 * q : undefined }));
   it("past the NPSHr column's last flow: both flows named (was the bare 'curve has no NPSHr at this flow')", () => {
     const f = operatingFigures({ curve: createPumpCurve({ points: pts }), flow: 0.025, fluid: water, suction: { surfacePressure: 101325, staticSuctionHead: 2, suctionLoss: 0 } });
     expect(f.npsh!.status).toBe("unknown");
