@@ -12,6 +12,7 @@ import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { readAdjustForm } from "~/lib/projects/adjust-form";
 import { readSystemForm, systemFormValues, type FormErrors } from "~/lib/projects/system-form";
+import { typedFields, typedOver, type TypedFields } from "~/lib/projects/typed-back";
 import { FormError, Notice } from "~/components/forms";
 import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
@@ -67,8 +68,9 @@ export async function action({ request, params }: Route.ActionArgs) {
       // Read against the stored document: a size the catalogue no longer lists is kept only where a stored run holds it, and
       // a post without the energy fields keeps the stored settings.
       const { input, name, errors } = readSystemForm(form, sys, await storedForEditor(viewer, id));
-      // Field errors answer 400, as every other form's (the page is rendered again with them, with or without JavaScript).
-      if (!input) return data({ errors, notice: null }, { status: 400 });
+      // Field errors answer 400, as every other form's (the page is rendered again with them, with or without JavaScript),
+      // with the fields as posted: without JavaScript the page shows them in place of the stored values (typed-back.ts).
+      if (!input) return data({ errors, notice: null, typed: typedFields(form) }, { status: 400 });
       await saveSystem(viewer, id, name, input);
       const structural = form.get("addRun") != null || [...form.keys()].some((k) => k.endsWith(".remove"));
       return { errors: {} as FormErrors, notice: structural ? "Pipe runs updated and saved." : "System saved.", saved: true };
@@ -111,7 +113,7 @@ async function postPreview([url, input]: [string, string]): Promise<WorkbenchVie
 
 export default function SystemPage() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null; saved?: boolean } | undefined;
+  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null; saved?: boolean; typed?: TypedFields } | undefined;
   const nav = useNavigation();
   const formRef = useRef<HTMLFormElement>(null);
   const [draft, setDraft] = useState<string | null>(null);
@@ -145,7 +147,8 @@ export default function SystemPage() {
   // The stored inputs' problems stand beside the fields until the form is read again (typing, or a save refused).
   const storedErrors = d.review && !typed && !Object.keys(a?.errors ?? {}).length ? d.review.fields : {};
   const errors = { ...storedErrors, ...(a?.errors ?? {}), ...liveErrors };
-  const f = systemFormValues(d.input, d.unitSystem);
+  // After a refused save, every field as typed in that post (the stored values otherwise).
+  const f = typedOver(systemFormValues(d.input, d.unitSystem), a?.typed);
   const ro = !d.canWrite;
   return (
     <div className="space-y-4">
@@ -166,9 +169,9 @@ export default function SystemPage() {
       <div className="grid gap-4 xl:grid-cols-[minmax(22rem,30rem)_1fr]">
         <Form method="post" ref={formRef} onInput={onInput} className="space-y-4" aria-label="System inputs" data-unsaved={unsaved.watching ? (unsaved.dirty ? "yes" : "no") : undefined}>
           <fieldset disabled={ro} className="space-y-4">
-            <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
+            <SystemFieldset f={f} errors={errors} unitSystem={d.unitSystem} name={a?.typed?.name ?? d.name} customFluid={draftInput.fluid?.kind === "custom" || f.fluidKind === "custom"} />
             <DutyFieldset f={f} errors={errors} unitSystem={d.unitSystem} currency={d.currency} dutyCheck={view?.evaluation?.dutyCheck} />
-            <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} />
+            <DutyCycleFieldset energy={d.input.energy ?? DEFAULT_ENERGY_SETTINGS} hoursPerYear={d.input.hoursPerYear} errors={errors} currency={d.currency} typed={a?.typed} />
             <RunsFieldset f={f} errors={errors} unitSystem={d.unitSystem} />
             {!ro ? (
               <div className="sticky bottom-2 flex items-center gap-3">

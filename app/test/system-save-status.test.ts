@@ -61,4 +61,27 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     expect(html).toMatch(/<form[^>]*method="post"/);
     expect(html).toMatch(/<input id="f-dutyFlow"[^>]*aria-invalid="true"/);
   }, 60_000);
+
+  test("a refused form post shows every field as typed in it (helper \"typedback\"): the bad duty flow -5 and the good edits beside it, not the stored values", async () => {
+    const good = editorPost(defaultSystemInput(), "Save status");
+    const form = { ...good, dutyFlow: "-5", "run.1.length": "75", tolPlus: "12", name: "Typed back", "run.0.remove": "on" };
+    expect([good.dutyFlow, good["run.1.length"]]).not.toEqual(["-5", "75"]); // the stored values differ from the typed ones
+    const res = await fetch(`${app!.base}/systems/${owner.system}`, {
+      method: "POST",
+      headers: { cookie: owner.m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams(form),
+      redirect: "manual",
+    });
+    const html = plainHtml(await res.text());
+    expect(res.status).toBe(400);
+    expect(html).toMatch(/<input id="f-dutyFlow"[^>]*value="-5"/);
+    expect(html).toMatch(/<input id="f-run\.1\.length"[^>]*value="75"/);
+    expect(html).toMatch(/<input id="f-tolPlus"[^>]*value="12"/);
+    expect(html).toMatch(/<input id="f-name"[^>]*value="Typed back"/);
+    expect(html).toMatch(/<input type="checkbox" name="run\.0\.remove" checked=""/);
+    // The page loaded afresh (no action) shows the stored values again: nothing of the refused post was kept.
+    const again = plainHtml(await (await fetch(`${app!.base}/systems/${owner.system}`, { headers: { cookie: owner.m.cookie } })).text());
+    expect(again).toMatch(new RegExp(`<input id="f-dutyFlow"[^>]*value="${good.dutyFlow}"`));
+    expect(again).not.toMatch(/<input id="f-run\.1\.length"[^>]*value="75"/);
+  }, 60_000);
 });

@@ -22,7 +22,7 @@ export function RunsFieldset({ f, errors, unitSystem }: FieldsetProps) {
         ) : null,
       )}
       {f.runs.map((r, i) => (
-        <RunFieldset key={i} r={r} i={i} errors={errors} unitSystem={unitSystem} />
+        <RunFieldset key={i} r={r} i={i} removed={f.removeRun[i] ?? false} errors={errors} unitSystem={unitSystem} />
       ))}
       <div className="flex flex-wrap gap-2">
         <button className="btn-quiet" name="addRun" value="suction">
@@ -36,7 +36,7 @@ export function RunsFieldset({ f, errors, unitSystem }: FieldsetProps) {
   );
 }
 
-function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { r: SystemFormValues["runs"][number]; i: number }) {
+function RunFieldset({ r, i, removed, errors, unitSystem }: Omit<FieldsetProps, "f"> & { r: SystemFormValues["runs"][number]; i: number; removed: boolean }) {
   const u = (q: Parameters<typeof labelOf>[1]) => labelOf(unitSystem, q);
   // The material follows the pipe table while it is the one shown by default (materialForTable, the form's own rule);
   // once picked it stays. The roughness hints are the material's, at once.
@@ -132,7 +132,7 @@ function RunFieldset({ r, i, errors, unitSystem }: Omit<FieldsetProps, "f"> & { 
         </div>
       </details>
       <label className="flex items-center gap-2 text-xs text-slate-600">
-        <input type="checkbox" name={`run.${i}.remove`} /> remove this run on save
+        <input type="checkbox" name={`run.${i}.remove`} defaultChecked={removed} /> remove this run on save
       </label>
     </fieldset>
   );
