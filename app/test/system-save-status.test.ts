@@ -45,16 +45,19 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
   }, 60_000);
   afterAll(() => app?.stop());
-
-  test("a form post with a negative duty flow: 400, the editor page again (its form, the field marked and its message beside it)", async () => {
-    const form = { ...editorPost(defaultSystemInput(), "Save status"), dutyFlow: "-5" };
-    const message = ((await post(form)).body as { errors: Record<string, string> }).errors.dutyFlow;
-    const res = await fetch(`${app!.base}/systems/${owner.system}`, {
+  /** The editor's form posted as a browser without JavaScript posts it (a signed-in owner, same origin). */
+  const postAsBrowser = (form: Record<string, string>) =>
+    fetch(`${app!.base}/systems/${owner.system}`, {
       method: "POST",
       headers: { cookie: owner.m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
       body: new URLSearchParams(form),
       redirect: "manual",
     });
+
+  test("a form post with a negative duty flow: 400, the editor page again (its form, the field marked and its message beside it)", async () => {
+    const form = { ...editorPost(defaultSystemInput(), "Save status"), dutyFlow: "-5" };
+    const message = ((await post(form)).body as { errors: Record<string, string> }).errors.dutyFlow;
+    const res = await postAsBrowser(form);
     const html = plainHtml(await res.text());
     expect([res.status, res.headers.get("content-type")]).toEqual([400, "text/html; charset=utf-8"]);
     expect(html).toContain(message);
@@ -66,12 +69,7 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     const good = editorPost(defaultSystemInput(), "Save status");
     const form = { ...good, dutyFlow: "-5", "run.1.length": "75", tolPlus: "12", name: "Typed back", "run.0.remove": "on" };
     expect([good.dutyFlow, good["run.1.length"]]).not.toEqual(["-5", "75"]); // the stored values differ from the typed ones
-    const res = await fetch(`${app!.base}/systems/${owner.system}`, {
-      method: "POST",
-      headers: { cookie: owner.m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams(form),
-      redirect: "manual",
-    });
+    const res = await postAsBrowser(form);
     const html = plainHtml(await res.text());
     expect(res.status).toBe(400);
     expect(html).toMatch(/<input id="f-dutyFlow"[^>]*value="-5"/);
