@@ -99,7 +99,7 @@ const securityHeaders = helmet({
  * `Connection: close` Node ends the socket after the answer and destroys it, and a socket destroyed with bytes unread is
  * answered by the kernel with a reset, which can reach the client before it has read the answer (EPIPE, ECONNRESET;
  * RFC 9112 §9.6). So the close lingers, as nginx's lingering_close and Apache's lingering close do: what the client still
- * sends is read and dropped — never kept — up to the path's body limit (after a 413, LINGER_BYTES) or for LINGER_MS, and
+ * sends is read and dropped — never kept — up to LINGER_BYTES or for LINGER_MS, and
  * only then is the connection destroyed; a body that ends meanwhile ends it cleanly (a kept-alive connection stays).
  */
 const LINGER_BYTES = 64 * 1024 * 1024;
@@ -114,7 +114,9 @@ function lingerAfterAnswer(req, res, next) {
     socket.removeListener("finish", socket.destroy);
     const close = () => socket.destroy();
     const timer = setTimeout(close, LINGER_MS).unref();
-    const cap = res.locals.tooLarge ? LINGER_BYTES : bodyLimitFor(pathOf(req));
+    // Up to LINGER_BYTES whatever the route's limit: the answer is out, and a body past that limit (the answer came before
+    // the limit was reached) is dropped like any other — cut at the route's limit, the client's last writes met a reset.
+    const cap = LINGER_BYTES;
     let dropped = 0;
     req.removeAllListeners("data"); // whoever was reading the body (React Router) has answered without it
     req.on("error", () => {});
@@ -158,7 +160,7 @@ function bodyLimit(req, res, next) {
     req.off("data", count);
     if (!res.headersSent) tooLarge(req, res, limit, seen);
     else if (!res.writableFinished) req.socket?.destroy(); // an answer being written: it cannot be finished now
-    // else answered before the body was read: lingerAfterAnswer drops the rest, up to the limit again
+    // else answered before the body was read: lingerAfterAnswer drops the rest, up to LINGER_BYTES
   };
   // Attached in the same tick as React Router's own reader (createRequestHandler builds the Request
   // synchronously), so both see every chunk.
