@@ -7,11 +7,11 @@
 // 998.2 kg/m³ (the app's default liquid), g₀ 9.80665 m/s² (CGPM 1901).
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createLibrary, updateLibrary, type Viewer } from "../libraries";
+import type { Viewer } from "../libraries";
 import { addCandidate, createProject, createSystem, listCandidates } from "./projects.server";
 import { searchForSystem } from "./search.server";
 import { defaultSystemInput, evaluateCandidate, type SystemInput } from "./hydraulics";
-import { importCsvText, M3H, viewerOfUser } from "./test-kit";
+import { M3H, oneModelLibrary, viewerOfUser } from "./test-kit";
 import { makeMember } from "~/test/harness";
 import { inSI } from "~/engine/quantityText";
 
@@ -26,9 +26,7 @@ const ROWS = [[0, 40, 0], [18, 44, 35], [36, 46, 55], [54, 45, 67], [72, 42, 74]
 beforeAll(async () => {
   const m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const lib = await createLibrary(v, { name: "Droop fifteen", description: "" });
-  await importCsvText(v, lib, ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct", ...ROWS.map(([q, h, e]) => `${MODEL},end-suction,DN65,2900,210,${q},${h},${e}`)].join("\n"));
-  await updateLibrary(v, lib, { name: "Droop fifteen", description: "", visibility: "workspace" });
+  await oneModelLibrary(v, "Droop fifteen", { model: MODEL, size: "DN65", impellerMm: 210, rows: ROWS });
   projectId = await createProject(v, { name: "Droop fifteen search", site: "", description: "" });
 });
 

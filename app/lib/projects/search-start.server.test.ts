@@ -5,11 +5,11 @@
 // ("Droop probe", 40 m at shut-off, 41.9 m at its peak), the system's static head set above or below that 40 m.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb } from "@db/client.server";
-import { createLibrary, updateLibrary, type Viewer } from "../libraries";
+import type { Viewer } from "../libraries";
 import { createProject, createSystem } from "./projects.server";
 import { searchForSystem } from "./search.server";
 import { defaultSystemInput, type SystemInput } from "./hydraulics";
-import { importCsvText, M3H, viewerOfUser } from "./test-kit";
+import { M3H, oneModelLibrary, viewerOfUser } from "./test-kit";
 import { makeMember } from "~/test/harness";
 import { inSI } from "~/engine/quantityText";
 
@@ -24,9 +24,7 @@ const ROWS = [[0, 40, 0], [18, 41.5, 45], [36, 41.9, 68], [54, 40.8, 74], [72, 3
 beforeAll(async () => {
   const m = await makeMember("admin");
   v = await viewerOfUser(m.userId);
-  const lib = await createLibrary(v, { name: "Droop probes", description: "" });
-  await importCsvText(v, lib, ["model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct", ...ROWS.map(([q, h, e]) => `${MODEL},end-suction,DN80,2900,200,${q},${h},${e}`)].join("\n"));
-  await updateLibrary(v, lib, { name: "Droop probes", description: "", visibility: "workspace" });
+  await oneModelLibrary(v, "Droop probes", { model: MODEL, size: "DN80", impellerMm: 200, rows: ROWS });
   projectId = await createProject(v, { name: "Droop search", site: "", description: "" });
 });
 

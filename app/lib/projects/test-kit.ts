@@ -42,6 +42,19 @@ export async function demoLibrary(v: Viewer, name: string, file = "tallowmere.cs
   return libraryId;
 }
 
+/**
+ * A library `name` open to the viewer's workspace holding one invented model: `rows` of flow m³/h, head m, efficiency %
+ * at 2900 rpm, end-suction, size `size`, impeller `impellerMm` mm — imported as the mapping page does. Its id.
+ */
+export async function oneModelLibrary(v: Viewer, name: string, m: { model: string; size: string; impellerMm: number; rows: number[][] }): Promise<number> {
+  const libraryId = await createLibrary(v, { name, description: "" });
+  const header = "model,type,size,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct";
+  const lines = m.rows.map(([q, h, e]) => `${m.model},end-suction,${m.size},2900,${m.impellerMm},${q},${h},${e}`);
+  await importCsvText(v, libraryId, [header, ...lines].join("\n"));
+  await updateLibrary(v, libraryId, { name, description: "", visibility: "workspace" });
+  return libraryId;
+}
+
 /** An admin with a workspace library of the Tallowmere demo curves named `library` and an empty project named `project`. */
 export async function demoProjectFixture(library: string, project: string) {
   const m = await makeMember("admin");
