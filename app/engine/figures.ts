@@ -17,7 +17,7 @@ import { efficiencyAt, ensurePumpCurve, npshrAt, shaftPowerAt, type BestEfficien
 import { G0 } from "./units.ts";
 import { limitCovers } from "./motor.ts";
 import { leastOn } from "./curveTouch.ts";
-import { fmtPctExact, insideEnds, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
+import { fmtPctExact, insideEnds, LIMIT_ROUNDING, qt, qtAboveZero, qtExact, qtLimit } from "./quantityText.ts";
 import { npshRatioBelow, npshRatioText } from "./npshRatio.ts";
 import { npshrStopsText } from "./npshrEnds.ts";
 
@@ -264,6 +264,10 @@ export function operatingFigures(input: FiguresInput): OperatingFigures {
   let shaftPower = shaftPowerAt(c, flow, rho);
   if (shaftPower === null && flow === 0) shaftPower = null;
   if (efficiency === null) warnings.push({ code: "no-efficiency", message: noEfficiencyText(c, flow, shaftPower !== null) });
+  // Derived from a power column (ρ·g·Q·H/P, two interpolants), efficiency can pass 100 % between points that imply at most
+  // 100 % (the curve's own warning looks at the points only): said at this flow, past 1 part in 10⁸ (LIMIT_ROUNDING).
+  if (efficiency !== null && efficiency > 1 + LIMIT_ROUNDING) warnings.push({ code: "efficiency-above-one",
+    message: `efficiency at this flow is ${fmtPctExact(efficiency, [1])}, above 100 %: the curve's power column gives less shaft power than the hydraulic power ρ·g·Q·H here; check the power column and its units` });
   if (!c.bep) for (const w of c.warnings) if (w.code === "bep-not-published") warnings.push(w);
   const bep = c.bep;
   const bepRatio = bep ? flow / bep.flow : null;
