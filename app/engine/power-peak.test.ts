@@ -3,7 +3,7 @@
 // the check looks at: before, `maxShaftPower` took the largest of the knots and 200 evenly spaced samples, 6.2 parts in 10⁶
 // under the peak on the curve below (13 387.61 W at 151.2 m³/h, the peak 13 387.69 W at 151.59 m³/h), so a motor limit
 // between the two was called "non-overloading" when the pump takes more at 151.6 m³/h. The peak is now solved
-// (golden-section search about each sampled local maximum). Check values: the peak of the engine's own interpolant found by
+// (golden-section search about each sampled local maximum within 1e-3 of the largest). Check values: the peak of the engine's own interpolant found by
 // a scan of 10⁶ evenly spaced flows (independent of the search; its spacing, 2.1e-4 m³/h, puts it within 1e-9 of the peak's
 // power); the rule "within motor rating × service factor, to 1 part in 10⁸" (motor.ts `limitCovers`, common practice);
 // the curve is invented (the shape of a non-overloading end-suction curve, from memory), and every demo curve set
