@@ -271,7 +271,7 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   const cat = catalogueReasons(input.catalogue);
   if (cat.length) {
     return { status: "outside-catalogue", edge: null,
-      rule: `outside-catalogue: impeller within the model's published diameters (a trim of at most ${fmtPctLimit(MAX_TRIM_FRACTION)} where none are published) and speed within ${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min)}–${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max)} of rated`,
+      rule: `outside-catalogue: impeller within the model's published diameters (a trim of at most ${fmtPctLimit(MAX_TRIM_FRACTION)} where none are published) and speed within ${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).min)}–${fmtPctLimit((input.catalogue?.speedRange ?? DEFAULT_SPEED_RANGE).max)} of rated, each ${ROUNDOFF_TEXT}`,
       reasons: cat.map((r) => `The ${r}: no published curve backs this pump.`) };
   }
 
@@ -297,7 +297,7 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
   const apart = (limit: number) => qtLimit("flow", limit, [q]);
   if (q < lo * (1 - eps)) {
     return { status: "short", edge: worst.name,
-      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${apart(lo)}`,
+      rule: `short: operating flow at the demanding edge below duty flow × (1 − ${fmtPctLimit(tol.minus)}) = ${apart(lo)}, ${ROUNDOFF_TEXT}`,
       reasons: [q === 0 // dead-head (common practice, from memory): the pump churns against its closed check valve
         ? `No delivery at ${worst.name}: the pump's shut-off head ${qt("head", worst.head as number)} only balances the system's head at zero flow (dead-head), against a duty of ${apart(qd)}${(best.flow as number) > 0 ? band : ""}.`
         : `Delivers ${flowText} at ${worst.name} against a duty of ${apart(qd)}: ${ratioText} of the duty, outside the tolerance ${tolText}${band}.`] };
@@ -311,12 +311,15 @@ function judgeOnWater(input: VerdictInput): Verdict | null {
       else reasons.push(`${cap(s.means)} to the duty (${s.how}): ${qtExact("power", s.power, [now])} shaft instead of ${qtExact("power", now, [s.power])} now, ${s.power < now ? `saving ${qt("power", now - s.power)} (${fmtPctExact((now - s.power) / now, [1], 0)})` : "no saving"}.`);
     }
     return { status: "oversized", edge: worst.name,
-      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${apart(hi)}`, reasons };
+      rule: `oversized: operating flow at the demanding edge above duty flow × (1 + ${fmtPctLimit(tol.plus)}) = ${apart(hi)}, ${ROUNDOFF_TEXT}`, reasons };
   }
   return { status: "meets", edge: worst.name,
-    rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText})`,
+    rule: `meets: operating flow at the demanding edge within ${qt("flow", lo)}–${qt("flow", hi)} (duty ${qt("flow", qd)}, tolerance ${tolText}), ${ROUNDOFF_TEXT}`,
     reasons: [`Delivers ${qt("flow", q)} at ${worst.name}, ${fmtPct(ratio)} of the duty ${qt("flow", qd)}${band}.`] }; // meets: a rounded limit reads true
 }
+
+/** The comparisons' allowance in the rules' words (LIMIT_ROUNDOFF, affinity.ts). */
+const ROUNDOFF_TEXT = "to 1 part in 10⁶ (solver round-off)";
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 

@@ -52,7 +52,10 @@ describe("3–8 pumps in parallel, each next one started against the head of tho
     const s = staged(20, 3);
     const flow = s[0].flow;
     expect(stagedShortfalls(s, flow * (1 - 1e-9), 0)).toEqual([]);
-    const short = stagedShortfalls(s, flow * (1 + 1e-9), 0);
+    // Within the verdict's own allowance (LIMIT_ROUNDOFF, 1 part in 10⁶: verdict-start-edge.test.ts) the duty is met, as the
+    // verdict says at that flow; past it, short (before "verdictaudit": short at 1e-9 above).
+    expect(stagedShortfalls(s, flow * (1 + 0.5e-6), 0)).toEqual([]);
+    const short = stagedShortfalls(s, flow * (1 + 2e-6), 0);
     expect(short).toHaveLength(2);
     expect(inSI(startAgainstVerdict(short) ?? "")).toMatch(/^started one after another \(duty\/standby staging\) the duty is not met: at least lift, new pipe pump 3 of 3 cannot open its check valve against the 30\.4 m pumps 1–2 hold \(above its shut-off head 30\.0 m\), so only 2 deliver, /);
   });

@@ -5,6 +5,7 @@
 // deliver. Where their flow is below the least the verdict accepts, the duty is not met that way, and wherever the
 // verdict is a headline (the candidates table, the report, the chart's label, the CSV) that qualifies it on the same
 // line, with its rule and numbers, as NPSH does (verdict-npsh.ts). Pure; quantities as tokens (quantityText.ts).
+import { LIMIT_ROUNDOFF } from "~/engine";
 import { fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 import type { StagedStart } from "./arrangement-start";
 import { againstWord } from "./verdict-npsh";
@@ -21,10 +22,13 @@ export type StagedShortfall = StagedStart & {
 };
 
 export const STAGED_START_RULE =
-  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is above its shut-off head; the duty is not met that way when those running deliver less than duty × (1 − minus tolerance) (common practice)";
+  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is above its shut-off head; the duty is not met that way when those running deliver less than duty × (1 − minus tolerance), by more than the verdict's 1 part in 10⁶ (common practice)";
 
 /**
- * The staged starts that leave the duty unmet: those running deliver less than duty × (1 − minus tolerance).
+ * The staged starts that leave the duty unmet: those running deliver less than duty × (1 − minus tolerance) by more than
+ * the verdict's own allowance (engine verdict.ts, LIMIT_ROUNDOFF: 1 part in 10⁶), so the two flip at one flow and the flow
+ * named prints apart from the limit (before, a flow 1 part in 10¹² under 54 m³/h read "54.0000000 m³/h, below the duty
+ * 54.0 m³/h" where the verdict said "meets").
  * @param staged the staged starts at the band's edges (arrangement-start.ts `parallelStaging`; heads m, flows m³/s)
  * @param dutyFlow the duty flow, m³/s (null: no duty, nothing judged)
  * @param minus the flow tolerance below the duty (fraction, 0–1)
@@ -32,7 +36,7 @@ export const STAGED_START_RULE =
 export function stagedShortfalls(staged: readonly StagedStart[], dutyFlow: number | null | undefined, minus: number): StagedShortfall[] {
   if (dutyFlow == null || !(dutyFlow > 0)) return [];
   const leastFlow = dutyFlow * (1 - minus);
-  return staged.filter((s) => s.flow < leastFlow).map((s) => ({ ...s, dutyFlow, leastFlow, minus }));
+  return staged.filter((s) => s.flow < leastFlow * (1 - LIMIT_ROUNDOFF)).map((s) => ({ ...s, dutyFlow, leastFlow, minus }));
 }
 
 /** Read from a frozen result: a list of shortfalls, or [] (selections frozen before it was kept have none). */
