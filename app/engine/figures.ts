@@ -168,7 +168,12 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
   requirePositive("density", density);
   const N = 200;
   const sample = (i: number) => c.flowMin + ((c.flowMax - c.flowMin) * i) / N;
-  const flows = [...new Set([...c.head.x, ...Array.from({ length: N + 1 }, (_, i) => sample(i))])].sort((a, b) => a - b);
+  // The knots and the samples, both rising, merged in order (no sort: this runs for every candidate and band edge).
+  const knots = c.head.x, flows: number[] = [];
+  for (let i = 0, k = 0; i <= N || k < knots.length; ) {
+    const q = k >= knots.length || (i <= N && sample(i) < knots[k]) ? sample(i++) : knots[k++];
+    if (flows.length === 0 || q !== flows[flows.length - 1]) flows.push(q);
+  }
   const power = (q: number) => {
     const p = shaftPowerAt(c, q, density);
     return p !== null && Number.isFinite(p) ? p : null;
@@ -176,13 +181,14 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
   const ps = flows.map(power);
   let best: { power: number; flow: number } | null = null;
   let upTo = -Infinity, from = Infinity;
-  ps.forEach((p, i) => {
-    if (p === null) return;
+  for (let i = 0; i < flows.length; i++) {
+    const p = ps[i];
+    if (p === null) continue;
     const q = flows[i];
     if (q > upTo) upTo = q;
     if (q < from) from = q;
     if (!best || p > best.power) best = { power: p, flow: q };
-  });
+  }
   if (!best) return null;
   let found: { power: number; flow: number } = best;
   // Each local maximum of the samples (not a flat run) near the largest holds a peak between its neighbours: solved there.
@@ -190,7 +196,7 @@ export function maxShaftPower(curve: PumpCurve | PumpCurveInput, density: number
   // curvature, parts in 10⁶). The flow to 1e-7 of the span puts the power within ~1e-14 of the peak's (flat there).
   const span = c.flowMax - c.flowMin;
   for (let i = 1; i + 1 < flows.length; i++) {
-    const [a, p, b] = [ps[i - 1], ps[i], ps[i + 1]];
+    const a = ps[i - 1], p = ps[i], b = ps[i + 1];
     if (a === null || p === null || b === null || p < a || p < b || (p === a && p === b) || p < found.power * (1 - 1e-3)) continue;
     const peak = leastOn((q) => -(power(q) ?? -Infinity), flows[i - 1], flows[i + 1], 1e-7 * span);
     if (-peak.fx > found.power) found = { power: -peak.fx, flow: peak.x };
