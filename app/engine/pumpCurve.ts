@@ -88,7 +88,11 @@ export interface PumpCurve {
   minDiameter: number | null;
   maxDiameter: number | null;
   powerDensity: number;
-  /** Head rises from shutoff before falling. */
+  /**
+   * A drooping curve: its head rises from its first point to a peak more than the tighter of `riseTolerance` and
+   * DROOP_FROM (5 %) of the first head above it, then falls (headShape.ts `droops`, the importer's `drooping-curve` rule);
+   * a smaller hump is taken as rounding (no `drooping-curve` warning, no duty-cycle step notes).
+   */
   drooping: boolean;
   /** Head at zero flow, m, when the curve starts at zero flow; else null. */
   shutoffHead: number | null;

@@ -15,9 +15,11 @@ import type { PumpPoint } from "./pumpCurve.ts";
  * power and NPSHr > 0.
  * @param pts points (flow m³/s, head m, efficiency fraction, power W, NPSHr m)
  * @param riseTol allowed rise of head with flow, fraction of the first head (dimensionless)
- * @returns largest head m, and whether the curve droops
+ * @returns largest head m; whether the curve droops (headShape.ts `droops`: its peak more than the tighter of
+ *   `riseTol` and DROOP_FROM, 5 %, of the first head above it); whether its head rises above its first head at all
+ *   (`rises`: the search's bracket scan, search.ts, where a curve may cross a duty twice)
  */
-export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean } {
+export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean; rises: boolean } {
   if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
   if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
   for (let i = 0; i < pts.length; i++) {
@@ -63,5 +65,5 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
   }
   const curve = shape.end();
   if (curve) throw new EngineInputError(`points[${curve.peakAt}].head`, headRefusalText(curve, riseTol));
-  return { headMax, drooping: headMax > h0 * (1 + 1e-9) };
+  return { headMax, drooping: shape.droops, rises: headMax > h0 };
 }
