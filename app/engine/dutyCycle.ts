@@ -44,8 +44,8 @@
  *   are not in the system curve, so the step's text says to check that enough head is left to drive the flow through
  *   them. A pump that must keep running there (a minimum speed, a process rule) is a design matter this model does not
  *   price: its energy at that step is not counted, as the text says.
- * A drooping curve on a drive: a step left of the slowed peak, or whose slowed shut-off head is below the system's head
- *   at zero flow, gets a note at the step (stepDroop.ts, common practice).
+ * A drooping curve, on a drive or at fixed speed: a step left of the (slowed) peak, or whose (slowed) shut-off head is
+ *   below the system's head at zero flow, gets a note at the step (stepDroop.ts, common practice).
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -263,8 +263,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
   if (hSet !== null && !(hSet > 0)) throw new EngineInputError("systemHead", `must be positive at the design flow for a pressure set point (${mode}): it is ${qt("head", hSet)}; use system-curve control for a system that runs by gravity`);
   const warnings: EngineWarning[] = [];
-  // A drooping curve on a drive: each step's speed judged against the curve's peak and the system's head at zero flow (stepDroop.ts).
-  const zeroFlowHead = vfd && curve.drooping ? requireFinite("systemHead(0)", input.systemHead(0)) : null;
+  // A drooping curve, on a drive or throttled at fixed speed: each step judged against the peak and the system's head at zero flow (stepDroop.ts).
+  const zeroFlowHead = curve.drooping ? requireFinite("systemHead(0)", input.systemHead(0)) : null;
 
   const steps = input.profile.map((s, i): StepResult => {
     const q = qDesign * s.flowFraction;
@@ -378,7 +378,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     // Off the BEP for the step's hours (stepPor.ts): at a drive's speed the BEP flow scales by it; a fixed-speed curve is as run.
     const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement, makerMinFlow });
     if (por) warnings.push(por);
-    if (zeroFlowHead !== null) warnings.push(...stepDroopWarnings({ curve, index: i, flowFraction: s.flowFraction, flow: q, speed: n, zeroFlowHead, units }));
+    if (zeroFlowHead !== null) warnings.push(...stepDroopWarnings({ curve, index: i, flowFraction: s.flowFraction, flow: q, speed: n, zeroFlowHead, units, fixed: !vfd }));
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
