@@ -117,6 +117,9 @@ function column(points: readonly PumpPoint[], key: "efficiency" | "power" | "nps
   return xs.length >= 2 ? monotoneCubic(xs, ys) : null;
 }
 
+/** The rise allowance where a curve's input gives none, a fraction of its first head (headShape.ts: rounding of published heads; ours). */
+export const RISE_TOLERANCE_DEFAULT = 0.1;
+
 /**
  * Validates points and builds the interpolated curve.
  * @param input points (flow m³/s, head m, efficiency fraction, power W, NPSHr m), speed rpm, diameters m, powerDensity kg/m³
@@ -126,7 +129,7 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
   const pts = input.points;
   if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
   if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
-  const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? 0.1);
+  const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? RISE_TOLERANCE_DEFAULT);
   if (riseTol < 0 || riseTol > 1) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
   const warnings: EngineWarning[] = [];
   const { headMax, drooping } = checkPumpPoints(pts, riseTol);

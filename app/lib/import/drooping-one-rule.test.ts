@@ -18,7 +18,7 @@ const importerWarns = (peak: number) => {
   pts.slice(1).forEach((p, i) => { expect(s.judge(p.head)).toBeNull(); s.take(p.head, p.flow, i + 2); });
   return s.drooping; // curve-sequence.ts: the `drooping-curve` warning
 };
-const EDGE = 40 * (1 + 0.05 * (1 + 1e-6)); // engine headShape.ts DROOP_FROM 5 % × (1 + DROOP_FROM_SLACK 1e-6), ours // 42.00004 m: the rounding rise's end
+const EDGE = 40 * (1 + 0.05 * (1 + 1e-6)); // 42.00004 m: engine headShape.ts DROOP_FROM 5 % × (1 + DROOP_FROM_SLACK 1e-6), ours
 
 describe("drooping: a peak past the rounding rise, at the engine's 10 % and the app's 100 % allowance", () => {
   it.each([
