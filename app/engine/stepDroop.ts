@@ -49,7 +49,7 @@ export interface StepDroopInput {
  * @param input.speed the step's speed ratio (dimensionless)
  * @param input.zeroFlowHead the system's head at zero flow, m
  * @param input.units pumps counted in the curve (count)
- * @param input.fixed true at fixed speed, throttled (words only)
+ * @param input.fixed true at fixed speed, throttled (unitless; words only)
  */
 export function stepDroopWarnings(input: StepDroopInput): EngineWarning[] {
   const { curve, index, flowFraction, flow: q, speed: n, zeroFlowHead, units = 1, fixed = false } = input;
