@@ -60,12 +60,13 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pastBelow, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pastBelow, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
 import { noSpeedMeets } from "./stepNoSpeed.ts";
 import { stepDroopWarnings } from "./stepDroop.ts";
+import { decimalSum } from "./decimalSum.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -246,7 +247,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (minSpeed >= 1) throw new EngineInputError("minSpeedRatio", "must be below 1");
   const maxSpeed = requirePositive("maxSpeedRatio", input.maxSpeedRatio ?? 1);
   const fixedRatio = requirePositive("fixedSpeedRatio", input.fixedSpeedRatio ?? 1);
-  if (maxSpeed < 1 || maxSpeed > 1.2 * (1 + 1e-9)) throw new EngineInputError("maxSpeedRatio", "must be from 1 (full speed) to 1.2");
+  if (maxSpeed < 1 || maxSpeed > 1.2) throw new EngineInputError("maxSpeedRatio", `must be from 1 (full speed) to 1.2 (the candidate's ratio's bound, exactly), not ${maxSpeed}`);
   if (!Array.isArray(input.profile)) throw new EngineInputError("profile", "must be a list of steps");
   if (input.profile.length === 0) throw new EngineInputError("profile", "is empty: give at least one step (flow fraction and hours)");
   if (input.profile.length > MAX_STEPS) throw new EngineInputError("profile", `has more than ${MAX_STEPS} steps`);
@@ -256,8 +257,9 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (f > MAX_FLOW_FRACTION) throw new EngineInputError(`profile[${i}].flowFraction`, `is above ${MAX_FLOW_FRACTION} (150 % of the design flow)`);
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
-  // The total to 2 decimals, or with those that set it apart from 8784 h (never "8784 h, more than a year (8784 h)").
-  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : fmtNumExact(totalHours, [8784])} h, more than a year (8784 h)`);
+  // The hours added up as typed, exactly (decimalSum.ts: 8783.99 + 0.01 is 8784); the total to 2 decimals, or as typed where those read 8784.
+  const hoursTyped = decimalSum(input.profile.map((s) => s.hours));
+  if (hoursTyped.compare(8784) > 0) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : hoursTyped.text} h, more than a year (8784 h)`);
   // Only the pressure modes hold a set point; system-curve control follows the system, downhill included.
   const pressureSet = mode === "constant-pressure" || mode === "proportional-pressure";
   const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
