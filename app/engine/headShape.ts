@@ -42,32 +42,6 @@ export const DROOP_MAX = 0.25;
  */
 export const PEAK_BY = 0.5;
 
-/**
- * The rise above the first head taken as rounding, not a droop, as a fraction of the first head: 5 % (the importer's
- * allowance, app/lib/import/point-rules.ts `RISE_FRACTION`, which is this), with a relative slack of
- * {@link DROOP_FROM_SLACK} on it. A curve is called drooping — the `drooping-curve` warning, PumpCurve `drooping`, the
- * duty cycle's step notes — where its peak lies further above its first head than the tighter of this and the shape's
- * own allowance (`HeadShape.droops`): the importer warns at it, and the engine, whose allowance is 10 % by default and
- * 100 % for the app's own stored curves, calls the same curves drooping (common practice, from memory: published heads
- * are rounded to some 2–3 significant digits, so a hump of a few per cent may be rounding).
- */
-export const DROOP_FROM = 0.05;
-
-/**
- * Relative slack on {@link DROOP_FROM} (1e-6 of it): absorbs the rounding of 5 % of a first head (42 m after 40 m is
- * exactly 5 %, though 0.05 × 40 is not exact in binary), and leaves every rise judged past it at least 5e-6 percentage
- * points above 5 %, so the importer's words print it apart from the limit (6 decimals of a per cent at most).
- */
-export const DROOP_FROM_SLACK = 1e-6;
-
-/**
- * The rise above the first head taken as rounding, m: DROOP_FROM × first × (1 + DROOP_FROM_SLACK).
- * @param first the curve's first head, m
- */
-export function droopFrom(first: number): number {
-  return DROOP_FROM * first * (1 + DROOP_FROM_SLACK);
-}
-
 /** Why a head is refused: `above-droop` and `second-rise` at a point, `rising-curve` at the curve's end (see the module). */
 export type HeadRefusal =
   | { kind: "above-droop"; head: number; first: number; limit: number }
@@ -112,14 +86,6 @@ export class HeadShape {
     return this.peak - this.first > this.allow;
   }
 
-  /**
-   * Whether the curve is called drooping wherever it is judged: its peak more than the tighter of `allow` and
-   * {@link droopFrom} above its first head (the importer's `drooping`, whose allowance is droopFrom; the engine's at
-   * 10 % or 100 %). Never true of a curve whose rise the importer takes as rounding.
-   */
-  get droops(): boolean {
-    return this.peak - this.first > Math.min(this.allow, droopFrom(this.first));
-  }
 
   /** The limit of a drooping peak, m: DROOP_MAX × the first head. */
   get droopLimit(): number {

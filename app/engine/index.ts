@@ -34,7 +34,7 @@ export {
   type Correlation, type DarcyCorrelation, type HeadLossCorrelation, type FrictionMethod, type Range,
 } from "./registry.ts";
 export { monotoneCubic, evalCubic, type MonotoneCubic } from "./interp.ts";
-export { DROOP_FROM, DROOP_MAX, PEAK_BY } from "./headShape.ts";
+export { DROOP_MAX, PEAK_BY } from "./headShape.ts";
 export {
   createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, flowsAtHead, sampleCurve, POR_FRACTION, RISE_TOLERANCE_DEFAULT,
   type PumpPoint, type PumpCurveInput, type PumpCurve, type BestEfficiencyPoint, type SampledCurve,

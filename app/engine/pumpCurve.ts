@@ -89,9 +89,10 @@ export interface PumpCurve {
   maxDiameter: number | null;
   powerDensity: number;
   /**
-   * A drooping curve: its head rises from its first point to a peak more than the tighter of `riseTolerance` and
-   * DROOP_FROM (5 %) of the first head above it, then falls (headShape.ts `droops`, the importer's `drooping-curve` rule);
-   * a smaller hump is taken as rounding (no `drooping-curve` warning, no duty-cycle step notes).
+   * A drooping curve: a head above its first point's anywhere, compared exactly (pumpPoints.ts) — the rule of the solver's
+   * start from rest, the `drooping-curve` warning and the duty cycle's step notes. Deliberately wider than the importer's
+   * `drooping-curve` warning (past its 5 % rounding rise, a plausibility judgement of published data): a 4.75 % hump is
+   * imported without a warning, and the engine's verdicts on it (no point from rest above 40 m) still need the words.
    */
   drooping: boolean;
   /** Head at zero flow, m, when the curve starts at zero flow; else null. */

@@ -15,11 +15,9 @@ import type { PumpPoint } from "./pumpCurve.ts";
  * power and NPSHr > 0.
  * @param pts points (flow m³/s, head m, efficiency fraction, power W, NPSHr m)
  * @param riseTol allowed rise of head with flow, fraction of the first head (dimensionless)
- * @returns largest head m; whether the curve droops (headShape.ts `droops`: its peak more than the tighter of
- *   `riseTol` and DROOP_FROM, 5 %, of the first head above it); whether its head rises above its first head at all
- *   (`rises`: the search's bracket scan, search.ts, where a curve may cross a duty twice)
+ * @returns largest head m, and whether the curve droops: a head above the first point's anywhere, exactly (PumpCurve `drooping`)
  */
-export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean; rises: boolean } {
+export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean } {
   if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
   if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
   for (let i = 0; i < pts.length; i++) {
@@ -65,5 +63,8 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
   }
   const curve = shape.end();
   if (curve) throw new EngineInputError(`points[${curve.peakAt}].head`, headRefusalText(curve, riseTol));
-  return { headMax, drooping: shape.droops, rises: headMax > h0 };
+  // Any head above the first, compared exactly: the solver judges from rest on the heads as given (operatingPoint.ts), so
+  // a hump of any height leaves a system head between the first head and the peak without a point from rest (no slack:
+  // the heads compared are the points' own, with no rounding to absorb).
+  return { headMax, drooping: headMax > h0 };
 }

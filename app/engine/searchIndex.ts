@@ -51,7 +51,7 @@ export interface SearchIndex {
   diameter: Float64Array;
   /** m, −1 if not given */
   minDiameter: Float64Array;
-  /** 1 where the head rises above its first head at all (a duty may lie on both sides of a hump: search.ts scans for a bracket); wider than PumpCurve `drooping`, which leaves out a rise taken as rounding. */
+  /** 1 where the head rises above its first head anywhere (PumpCurve `drooping`: a duty may lie on both sides of a hump, search.ts scans for a bracket). */
   drooping: Uint8Array;
   head: Packed;
   /** Efficiency (given, or derived from power at the power column's points). */
@@ -172,13 +172,13 @@ export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
       ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
       flowMin.push(c.flowMin); flowMax.push(c.flowMax); headMax.push(c.headMax); bepFlow.push(c.bep ? c.bep.flow : -1);
       speed.push(c.speed ?? -1); diameter.push(c.impellerDiameter ?? -1); minDiameter.push(c.minDiameter ?? -1);
-      drooping.push(c.headMax > c.points[0].head ? 1 : 0);
+      drooping.push(c.drooping ? 1 : 0);
       head.add(c.head); eff.add(derivedEfficiency(c)); npshr.add(c.npshr);
       continue;
     }
     // Raw input: the same checks as createPumpCurve, packed straight into the index (no
     // per-curve objects, so a large library loads quickly and costs little memory).
-    let v: { headMax: number; rises: boolean };
+    let v: { headMax: number; drooping: boolean };
     let sp: number, dia: number, dMin: number, dMax: number, rhoP: number;
     const input = curve as PumpCurveInput;
     try {
@@ -197,7 +197,7 @@ export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
     const pts = input.points;
     ids.push(String(s.id)); labels.push(s.label ?? String(s.id));
     flowMin.push(pts[0].flow); flowMax.push(pts[pts.length - 1].flow); headMax.push(v.headMax);
-    speed.push(sp); diameter.push(dia); minDiameter.push(dMin); drooping.push(v.rises ? 1 : 0);
+    speed.push(sp); diameter.push(dia); minDiameter.push(dMin); drooping.push(v.drooping ? 1 : 0);
     let st = head.begin();
     for (const p of pts) head.push(p.flow, p.head);
     head.end(st);

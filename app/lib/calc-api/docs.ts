@@ -2,7 +2,7 @@
 // engine's correlation registry, so a limit on the page cannot drift from the limit enforced.
 // Pure: runs wherever the page renders.
 import type * as v from "valibot";
-import { DROOP_FROM, DROOP_MAX, PEAK_BY, RISE_TOLERANCE_DEFAULT, ROUGHNESS_MAX_OF_DIAMETER, findCorrelation, type DarcyCorrelation } from "~/engine";
+import { DROOP_MAX, PEAK_BY, RISE_TOLERANCE_DEFAULT, ROUGHNESS_MAX_OF_DIAMETER, findCorrelation, type DarcyCorrelation } from "~/engine";
 import { DEFAULT_TEMPERATURE_C, OperatingPointRequest, PipeLossRequest, SystemCurveRequest } from "./schemas";
 
 /** Unit by field-name suffix: the API's one convention (every quantity carries its unit in its name). */
@@ -154,12 +154,10 @@ export const PUMP_HEAD_SHAPE = {
   droopMax: DROOP_MAX,
   /** The peak reached by this fraction of the published flows (first to last flow). */
   peakBy: PEAK_BY,
-  /** A peak further than this above the first head is warned of as drooping (fraction; a smaller hump is rounding). */
-  warnFrom: DROOP_FROM,
   rules: [
     `Falling: from the first point on, a head may rise above the lowest head before it by no more than ${pct(RISE_TOLERANCE_DEFAULT)} of the first point's head (rounding of published values); a hump within that is taken wherever it lies.`,
     `Drooping: the head may rise from the first point to one peak at most ${pct(DROOP_MAX)} above the first point's head, reached by ${pct(PEAK_BY)} of the way from the first published flow to the last (the first half), then fall, rising again by no more than the ${pct(RISE_TOLERANCE_DEFAULT)} above the lowest head since.`,
-    `A peak more than ${pct(DROOP_FROM)} above the first point's head is answered with the warning drooping-curve (the pump may not start against a system head above its first head, and a system curve may cross it twice: status multiple or no_intersection); a smaller hump is taken as rounding, without it.`,
+    `A curve whose head lies above its first point's anywhere, however little, is answered with the warning drooping-curve: the pump cannot start against a system head above its first head, and a system curve may cross it twice (status multiple or no_intersection).`,
     `Refused (400, at pump.points[i].head_m): a head more than ${pct(DROOP_MAX)} above the first point's head; a second rise of more than ${pct(RISE_TOLERANCE_DEFAULT)} after falling; a head rising more than ${pct(RISE_TOLERANCE_DEFAULT)} above the first point's whose highest point lies past the first half of the flows (a system curve, or columns swapped). Each limit is judged to 1 part in 10⁸ of it.`,
   ],
 } as const;

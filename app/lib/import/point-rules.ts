@@ -10,7 +10,7 @@
  * curve set it accepts is later left out of the search without a word.
  */
 import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts";
-import { DROOP_FROM, DROOP_FROM_SLACK, DROOP_MAX, HeadShape, PEAK_BY, type HeadRefusal } from "../../engine/headShape.ts";
+import { DROOP_MAX, HeadShape, PEAK_BY, type HeadRefusal } from "../../engine/headShape.ts";
 
 /**
  * The rounding allowance of the head's shape (engine headShape.ts), as a fraction of the curve's first head: a head may
@@ -20,14 +20,14 @@ import { DROOP_FROM, DROOP_FROM_SLACK, DROOP_MAX, HeadShape, PEAK_BY, type HeadR
  * and catches mistyped values (a second rise after falling). A rise above the first head beyond it is a drooping curve:
  * kept with a warning (`drooping-curve`) up to DROOP_MAX (25 %) with its peak in the first half of the flows, else refused.
  */
-export const RISE_FRACTION = DROOP_FROM; // 0.05, the engine's rounding rise: one rule for what is called drooping
+export const RISE_FRACTION = 0.05;
 
 /**
  * Relative slack on the rise limit (fraction of it, 1e-6): absorbs rounding (42 after 40 is exactly 5 %), and leaves every
  * refused rise at least 5e-6 percentage points above 5 % of the first head, so the message prints it apart from the
  * limit: fmtPctExact shows up to 6 decimals of a percent, qtExact up to 9 significant digits.
  */
-export const RISE_SLACK = DROOP_FROM_SLACK; // 1e-6
+export const RISE_SLACK = 1e-6;
 
 /**
  * The head's shape as the importer judges it (engine headShape.ts at RISE_FRACTION × the first head × (1 + RISE_SLACK)):
