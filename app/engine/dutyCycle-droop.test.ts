@@ -1,7 +1,7 @@
 // A drooping curve on a drive (stepDroop.ts): a step left of the curve's peak as slowed to the step's speed n (q < n · Q_peak)
 // gets `step-rising-branch` (the pump may hunt between two flows of one head); a step whose slowed shut-off head n² · H0
 // is below the system's head at zero flow gets `step-no-start` (started against its closed check valve it could not open
-// it). Both rules common practice. Each flips 1e-6 relative either side of its threshold; a curve that is not drooping
+// it). Both rules common practice, at fixed speed (throttled) too. Each flips 1e-6 relative either side of its threshold; a curve that is not drooping
 // gets neither. Check values: an invented drooping curve (not any maker's): 40 m at shut-off, peak 46 m at 36 m³/h,
 // 20 m at 120 m³/h; invented systems H = S + k · Q² with H = 36 m at the design flow 80 m³/h.
 import { describe, expect, it } from "vitest";
@@ -76,7 +76,43 @@ describe("a curve that is not drooping gets neither note", () => {
       expect(droopCodes(r)).toEqual([]);
     }
   });
-  it("at fixed speed the drooping curve gets neither (judged on a drive only)", () => {
-    expect(droopCodes(run("fixed-speed", 10, [0.25, 0.6]))).toEqual([]);
+  it("nor at fixed speed", () => {
+    expect(droopCodes(run("fixed-speed", 10, [0.25, 0.6], level))).toEqual([]);
+  });
+});
+
+describe("at fixed speed, throttled: the same notes on the curve as run", () => {
+  // Throttled on the system, the pump runs on its own curve at the step's flow: left of the peak's 36 m³/h it is on
+  // the rising branch as on a drive. Before, only a drive's steps were judged (20 m³/h at fixed speed: no note).
+  it.each([
+    ["1e-6 relative left of the peak's flow", 1 - 1e-6, [[STEP_RISING_BRANCH, "profile[0]"]]],
+    ["1e-6 relative right of it", 1 + 1e-6, []],
+  ])("%s", (_, by, codes) => {
+    const r = run("fixed-speed", 10, [(QP / QD) * by]);
+    expect(r.steps[0].status).toBe("ok");
+    expect(droopCodes(r)).toEqual(codes);
+  });
+
+  it("the note names the step, its flow, the peak and the rule", () => {
+    const r = run("fixed-speed", 10, [0.25, 0.6]); // 20 m³/h left of 36 m³/h; 48 m³/h right of it
+    expect(droopCodes(r)).toEqual([[STEP_RISING_BRANCH, "profile[0]"]]);
+    expect(inSI(r.warnings.find((w) => w.code === STEP_RISING_BRANCH)!.message)).toBe(
+      "at 25 % flow the pump runs at fixed speed, throttled, 20.0 m³/h: left of the drooping curve's peak, 46.0 m at 36.0 m³/h, on the rising branch, where the pump gives one head at two flows and may hunt between them (common practice: run a drooping curve right of its peak)",
+    );
+  });
+
+  it("a shut-off head below the system's head at zero flow: step-no-start, flipping 1e-6 relative either side of 40 m", () => {
+    // static 40 m × (1 ± 1e-6): the step at 60 % (48 m³/h) still met (the pump's 43.3 m or so above the system's 40 m + losses)
+    for (const [by, codes] of [[1 + 1e-6, [[STEP_NO_START, "profile[0]"]]], [1 - 1e-6, []]] as const) {
+      const r = dutyCycleEnergy({ curve: droop, systemHead: (q) => 40 * by + (q * q) / (QD * QD), designFlow: QD, mode: "fixed-speed", profile: [{ flowFraction: 0.6, hours: 1000 }],
+        density: 1000, motor: { rating: 15000, efficiency: 0.9 }, driveEfficiency: null });
+      expect(r.steps[0].status).toBe("ok");
+      expect(droopCodes(r)).toEqual(codes);
+    }
+    const r = dutyCycleEnergy({ curve: droop, systemHead: (q) => 40.5 + (q * q) / (QD * QD), designFlow: QD, mode: "fixed-speed", profile: [{ flowFraction: 0.6, hours: 1000 }],
+      density: 1000, motor: { rating: 15000, efficiency: 0.9 }, driveEfficiency: null });
+    expect(inSI(r.warnings.find((w) => w.code === STEP_NO_START)!.message)).toBe(
+      "at 60 % flow the pump runs at fixed speed, throttled, where its shut-off head 40.0 m is below the system's head at zero flow, 40.5 m (static head and pressure difference): started from rest at this speed against its closed check valve it could not open it (common practice: a pump starts against its closed check valve)",
+    );
   });
 });

@@ -44,8 +44,8 @@
  *   are not in the system curve, so the step's text says to check that enough head is left to drive the flow through
  *   them. A pump that must keep running there (a minimum speed, a process rule) is a design matter this model does not
  *   price: its energy at that step is not counted, as the text says.
- * A drooping curve on a drive: a step left of the slowed peak, or whose slowed shut-off head is below the system's head
- *   at zero flow, gets a note at the step (stepDroop.ts, common practice).
+ * A drooping curve, on a drive or at fixed speed: a step left of the (slowed) peak, or whose (slowed) shut-off head is
+ *   below the system's head at zero flow, gets a note at the step (stepDroop.ts, common practice).
  * Electrical input P_el = P_shaft / (η_motor(x) · η_drive(x)), x = P_shaft / motor rating:
  * - motor part load (common practice assumption, from memory of typical IE3 induction-motor part-load
  *   data: nearly flat from 50 to 100 % load, falling below): η = η_rated × k_m(x), k_m = 1 at x ≥ 0.5,
@@ -60,12 +60,13 @@ import { EngineInputError, requireFinite, requireNonNegative, requirePositive, t
 import { ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { speedForDuty } from "./affinity.ts";
 import { G0 } from "./units.ts";
-import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pastBelow, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
+import { fmtPct, fmtPctExact, fmtPctLimit, LIMIT_ROUNDING, pastBelow, pctLimitWithDecimals, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { limitCovers, motorLimit } from "./motor.ts";
 import { cycleTotals, markNeverRun } from "./cycleTotals.ts";
 import { stepPorWarning } from "./stepPor.ts";
 import { noSpeedMeets } from "./stepNoSpeed.ts";
 import { stepDroopWarnings } from "./stepDroop.ts";
+import { decimalSum } from "./decimalSum.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -246,7 +247,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
   if (minSpeed >= 1) throw new EngineInputError("minSpeedRatio", "must be below 1");
   const maxSpeed = requirePositive("maxSpeedRatio", input.maxSpeedRatio ?? 1);
   const fixedRatio = requirePositive("fixedSpeedRatio", input.fixedSpeedRatio ?? 1);
-  if (maxSpeed < 1 || maxSpeed > 1.2 * (1 + 1e-9)) throw new EngineInputError("maxSpeedRatio", "must be from 1 (full speed) to 1.2");
+  if (maxSpeed < 1 || maxSpeed > 1.2) throw new EngineInputError("maxSpeedRatio", `must be from 1 (full speed) to 1.2 (the candidate's ratio's bound, exactly), not ${maxSpeed}`);
   if (!Array.isArray(input.profile)) throw new EngineInputError("profile", "must be a list of steps");
   if (input.profile.length === 0) throw new EngineInputError("profile", "is empty: give at least one step (flow fraction and hours)");
   if (input.profile.length > MAX_STEPS) throw new EngineInputError("profile", `has more than ${MAX_STEPS} steps`);
@@ -256,15 +257,16 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     if (f > MAX_FLOW_FRACTION) throw new EngineInputError(`profile[${i}].flowFraction`, `is above ${MAX_FLOW_FRACTION} (150 % of the design flow)`);
     totalHours += requireNonNegative(`profile[${i}].hours`, s.hours);
   }
-  // The total to 2 decimals, or with those that set it apart from 8784 h (never "8784 h, more than a year (8784 h)").
-  if (totalHours > 8784 * (1 + 1e-9)) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : fmtNumExact(totalHours, [8784])} h, more than a year (8784 h)`);
+  // The hours added up as typed, exactly (decimalSum.ts: 8783.99 + 0.01 is 8784); the total to 2 decimals, or as typed where those read 8784.
+  const hoursTyped = decimalSum(input.profile.map((s) => s.hours));
+  if (hoursTyped.compare(8784) > 0) throw new EngineInputError("profile", `adds up to ${Number(totalHours.toFixed(2)) > 8784 ? Number(totalHours.toFixed(2)) : hoursTyped.text} h, more than a year (8784 h)`);
   // Only the pressure modes hold a set point; system-curve control follows the system, downhill included.
   const pressureSet = mode === "constant-pressure" || mode === "proportional-pressure";
   const hSet = pressureSet ? requireFinite("systemHead(designFlow)", input.systemHead(qDesign)) : null;
   if (hSet !== null && !(hSet > 0)) throw new EngineInputError("systemHead", `must be positive at the design flow for a pressure set point (${mode}): it is ${qt("head", hSet)}; use system-curve control for a system that runs by gravity`);
   const warnings: EngineWarning[] = [];
-  // A drooping curve on a drive: each step's speed judged against the curve's peak and the system's head at zero flow (stepDroop.ts).
-  const zeroFlowHead = vfd && curve.drooping ? requireFinite("systemHead(0)", input.systemHead(0)) : null;
+  // A drooping curve, on a drive or throttled at fixed speed: each step judged against the peak and the system's head at zero flow (stepDroop.ts).
+  const zeroFlowHead = curve.drooping ? requireFinite("systemHead(0)", input.systemHead(0)) : null;
 
   const steps = input.profile.map((s, i): StepResult => {
     const q = qDesign * s.flowFraction;
@@ -378,7 +380,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     // Off the BEP for the step's hours (stepPor.ts): at a drive's speed the BEP flow scales by it; a fixed-speed curve is as run.
     const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement, makerMinFlow });
     if (por) warnings.push(por);
-    if (zeroFlowHead !== null) warnings.push(...stepDroopWarnings({ curve, index: i, flowFraction: s.flowFraction, flow: q, speed: n, zeroFlowHead, units }));
+    if (zeroFlowHead !== null) warnings.push(...stepDroopWarnings({ curve, index: i, flowFraction: s.flowFraction, flow: q, speed: n, zeroFlowHead, units, fixed: !vfd }));
     const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
     const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));

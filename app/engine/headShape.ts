@@ -81,10 +81,11 @@ export class HeadShape {
     this.allow = allow;
   }
 
-  /** Whether the curve droops beyond the allowance: its peak more than `allow` above its first head. */
+  /** Whether the curve droops beyond the allowance: its peak more than `allow` above its first head (the shape's rules). */
   get drooping(): boolean {
     return this.peak - this.first > this.allow;
   }
+
 
   /** The limit of a drooping peak, m: DROOP_MAX × the first head. */
   get droopLimit(): number {

@@ -34,8 +34,9 @@ export {
   type Correlation, type DarcyCorrelation, type HeadLossCorrelation, type FrictionMethod, type Range,
 } from "./registry.ts";
 export { monotoneCubic, evalCubic, type MonotoneCubic } from "./interp.ts";
+export { DROOP_MAX, PEAK_BY } from "./headShape.ts";
 export {
-  createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, flowsAtHead, sampleCurve, POR_FRACTION,
+  createPumpCurve, ensurePumpCurve, headAt, efficiencyAt, shaftPowerAt, npshrAt, flowsAtHead, sampleCurve, POR_FRACTION, RISE_TOLERANCE_DEFAULT,
   type PumpPoint, type PumpCurveInput, type PumpCurve, type BestEfficiencyPoint, type SampledCurve,
 } from "./pumpCurve.ts";
 export { NPSHR_END_ROUNDING } from "./npshrEnds.ts";

@@ -88,7 +88,12 @@ export interface PumpCurve {
   minDiameter: number | null;
   maxDiameter: number | null;
   powerDensity: number;
-  /** Head rises from shutoff before falling. */
+  /**
+   * A drooping curve: a head above its first point's anywhere, compared exactly (pumpPoints.ts) — the rule of the solver's
+   * start from rest, the `drooping-curve` warning and the duty cycle's step notes. Deliberately wider than the importer's
+   * `drooping-curve` warning (past its 5 % rounding rise, a plausibility judgement of published data): a 4.75 % hump is
+   * imported without a warning, and the engine's verdicts on it (no point from rest above 40 m) still need the words.
+   */
   drooping: boolean;
   /** Head at zero flow, m, when the curve starts at zero flow; else null. */
   shutoffHead: number | null;
@@ -113,6 +118,9 @@ function column(points: readonly PumpPoint[], key: "efficiency" | "power" | "nps
   return xs.length >= 2 ? monotoneCubic(xs, ys) : null;
 }
 
+/** The rise allowance where a curve's input gives none, a fraction of its first head (headShape.ts: rounding of published heads; ours). */
+export const RISE_TOLERANCE_DEFAULT = 0.1;
+
 /**
  * Validates points and builds the interpolated curve.
  * @param input points (flow m³/s, head m, efficiency fraction, power W, NPSHr m), speed rpm, diameters m, powerDensity kg/m³
@@ -122,7 +130,7 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
   const pts = input.points;
   if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
   if (pts.length < 2) throw new EngineInputError("points", "a curve needs at least two points");
-  const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? 0.1);
+  const riseTol = requireFinite("riseTolerance", input.riseTolerance ?? RISE_TOLERANCE_DEFAULT);
   if (riseTol < 0 || riseTol > 1) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
   const warnings: EngineWarning[] = [];
   const { headMax, drooping } = checkPumpPoints(pts, riseTol);

@@ -15,7 +15,7 @@ import type { PumpPoint } from "./pumpCurve.ts";
  * power and NPSHr > 0.
  * @param pts points (flow m³/s, head m, efficiency fraction, power W, NPSHr m)
  * @param riseTol allowed rise of head with flow, fraction of the first head (dimensionless)
- * @returns largest head m, and whether the curve droops
+ * @returns largest head m, and whether the curve droops: a head above the first point's anywhere, exactly (PumpCurve `drooping`)
  */
 export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { headMax: number; drooping: boolean } {
   if (!Array.isArray(pts) || pts.length === 0) throw new EngineInputError("points", "the curve has no points");
@@ -63,5 +63,8 @@ export function checkPumpPoints(pts: readonly PumpPoint[], riseTol: number): { h
   }
   const curve = shape.end();
   if (curve) throw new EngineInputError(`points[${curve.peakAt}].head`, headRefusalText(curve, riseTol));
-  return { headMax, drooping: headMax > h0 * (1 + 1e-9) };
+  // Any head above the first, compared exactly: the solver judges from rest on the heads as given (operatingPoint.ts), so
+  // a hump of any height leaves a system head between the first head and the peak without a point from rest (no slack:
+  // the heads compared are the points' own, with no rounding to absorb).
+  return { headMax, drooping: headMax > h0 };
 }

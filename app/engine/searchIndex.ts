@@ -6,7 +6,7 @@
  */
 import { EngineInputError, requirePositive } from "./errors.ts";
 import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
-import { checkPumpPoints, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { checkPumpPoints, RISE_TOLERANCE_DEFAULT, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { npshrFlow } from "./npshrEnds.ts";
 import { G0 } from "./units.ts";
 
@@ -51,6 +51,7 @@ export interface SearchIndex {
   diameter: Float64Array;
   /** m, −1 if not given */
   minDiameter: Float64Array;
+  /** 1 where the head rises above its first head anywhere (PumpCurve `drooping`: a duty may lie on both sides of a hump, search.ts scans for a bracket). */
   drooping: Uint8Array;
   head: Packed;
   /** Efficiency (given, or derived from power at the power column's points). */
@@ -182,7 +183,7 @@ export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
     const input = curve as PumpCurveInput;
     try {
       if (!input || typeof input !== "object") throw new EngineInputError("curve", "is required");
-      const tol = input.riseTolerance ?? 0.1;
+      const tol = input.riseTolerance ?? RISE_TOLERANCE_DEFAULT;
       if (!(tol >= 0 && tol <= 1)) throw new EngineInputError("riseTolerance", "must be between 0 and 1");
       v = checkPumpPoints(input.points, tol);
       sp = optional("speed", input.speed); dia = optional("impellerDiameter", input.impellerDiameter);

@@ -1,6 +1,7 @@
 /**
  * A duty-cycle step of a drooping curve (head rising from shut-off to one peak, then falling: headShape.ts) run on a
- * drive, judged against the curve as slowed to the step's speed n (affinity laws: Q ∝ N, H ∝ N²):
+ * drive, or at fixed speed throttled (n its set speed, 1 at the curve's), judged against the curve at the step's speed n
+ * (affinity laws: Q ∝ N, H ∝ N²):
  * - `step-rising-branch`: the step's flow q lies left of the slowed peak, q < n · Q_peak (the full-speed point on its
  *   affinity parabola, q / n, left of the peak's flow Q_peak): on the rising (unstable) branch, where the pump gives the
  *   same head at two flows and may hunt between them (common practice: run a drooping curve right of its peak);
@@ -35,6 +36,8 @@ export interface StepDroopInput {
   zeroFlowHead: number;
   /** Pumps counted in the curve (count; absent: 1): the notes say "the k pumps". */
   units?: number;
+  /** At fixed speed, throttled (its speed the curve's, or a candidate's set speed): the notes say so, not "at this speed". */
+  fixed?: boolean;
 }
 
 /**
@@ -46,24 +49,30 @@ export interface StepDroopInput {
  * @param input.speed the step's speed ratio (dimensionless)
  * @param input.zeroFlowHead the system's head at zero flow, m
  * @param input.units pumps counted in the curve (count)
+ * @param input.fixed true at fixed speed, throttled (unitless; words only)
  */
 export function stepDroopWarnings(input: StepDroopInput): EngineWarning[] {
-  const { curve, index, flowFraction, flow: q, speed: n, zeroFlowHead, units = 1 } = input;
+  const { curve, index, flowFraction, flow: q, speed: n, zeroFlowHead, units = 1, fixed = false } = input;
   if (!curve.drooping || !(n > 0)) return [];
   const out: EngineWarning[] = [];
-  const at = `at ${Math.round(flowFraction * 100)} % flow ${units === 1 ? "the pump runs" : `the ${units} pumps run`} at ${fmtPct(n)} speed`;
+  const speedWords = fixed ? (n === 1 ? "at fixed speed, throttled" : `at its set speed ${fmtPct(n)}, throttled`) : `at ${fmtPct(n)} speed`;
+  const at = `at ${Math.round(flowFraction * 100)} % flow ${units === 1 ? "the pump runs" : `the ${units} pumps run`} ${speedWords}`;
   const first = curve.points[0];
   const peak = curve.points.find((p) => p.head === curve.headMax)!; // the interpolant peaks at a point (monotone cubic)
   const peakFlow = n * peak.flow;
   if (pastBelow(q, peakFlow)) {
     const [flow, slowed] = qtPair("flow", q, peakFlow);
-    out.push({ code: STEP_RISING_BRANCH, parameter: `profile[${index}]`, message: `${at}, ${flow}: left of the drooping curve's peak at this speed, ${qt("head", n * n * peak.head)} at ${slowed} (${qt("head", peak.head)} at ${qt("flow", peak.flow)} at full speed), on the rising branch, where the pump gives one head at two flows and may hunt between them (common practice: run a drooping curve right of its peak)` });
+    const where = n === 1 ? `the drooping curve's peak, ${qt("head", peak.head)} at ${slowed}` : `the drooping curve's peak at this speed, ${qt("head", n * n * peak.head)} at ${slowed} (${qt("head", peak.head)} at ${qt("flow", peak.flow)} at full speed)`;
+    out.push({ code: STEP_RISING_BRANCH, parameter: `profile[${index}]`, message: `${at}, ${flow}: left of ${where}, on the rising branch, where the pump gives one head at two flows and may hunt between them (common practice: run a drooping curve right of its peak)` });
   }
   const h0 = n * n * first.head;
   if (pastBelow(h0, zeroFlowHead)) {
     const [slowed, system] = qtPair("head", h0, zeroFlowHead);
     const what = first.flow === 0 ? `its shut-off head ${qt("head", first.head)}` : `its head at its first published flow, ${qt("head", first.head)} (its shut-off head is not published)`;
-    out.push({ code: STEP_NO_START, parameter: `profile[${index}]`, message: `${at}, where ${what} slows to ${slowed} (× ${fmtPct(n)} squared, affinity laws), below the system's head at zero flow, ${system} (static head and pressure difference): started from rest at this speed against its closed check valve it could not open it (common practice: a pump starts against its closed check valve; set the drive's lowest speed so that its shut-off head there exceeds the system's head at zero flow)` });
+    const head = n !== 1 ? `${what} slows to ${slowed} (× ${fmtPct(n)} squared, affinity laws),`
+      : first.flow === 0 ? `its shut-off head ${slowed} is` : `its head at its first published flow, ${slowed} (its shut-off head is not published), is`;
+    const fix = fixed ? "" : "; set the drive's lowest speed so that its shut-off head there exceeds the system's head at zero flow";
+    out.push({ code: STEP_NO_START, parameter: `profile[${index}]`, message: `${at}, where ${head} below the system's head at zero flow, ${system} (static head and pressure difference): started from rest at this speed against its closed check valve it could not open it (common practice: a pump starts against its closed check valve${fix})` });
   }
   return out;
 }

@@ -1,6 +1,6 @@
 import type { Route } from "./+types/api-docs";
 import { ANON_RATE_LIMIT, CALC_LIMITS } from "~/lib/calc-api/schemas";
-import { REQUEST_SCHEMAS, UNIT_SUFFIXES, calculatorCorrelations, describeRequest } from "~/lib/calc-api/docs";
+import { PUMP_HEAD_SHAPE, REQUEST_SCHEMAS, UNIT_SUFFIXES, calculatorCorrelations, describeRequest } from "~/lib/calc-api/docs";
 import { CALC_ENDPOINT_DOCS, PIPE_LOSS_REQ } from "~/lib/calc-api/examples";
 import { SystemsApiDocs } from "~/components/api-docs-systems";
 import { DocTable } from "~/components/DocTable";
@@ -16,6 +16,7 @@ export function loader() {
     rate: ANON_RATE_LIMIT,
     endpoints: CALC_ENDPOINT_DOCS.map((e) => ({ ...e, fields: describeRequest(REQUEST_SCHEMAS[e.id]) })),
     correlations: calculatorCorrelations(),
+    headShape: PUMP_HEAD_SHAPE.rules,
     /** Rows a page of the API's lists (each route answers with the same constant). */
     pageSizes: {
       /** GET /api/v1/libraries/:id/models */
@@ -92,7 +93,7 @@ function Code({ children }: { children: string }) {
 }
 
 export default function ApiDocs({ loaderData }: Route.ComponentProps) {
-  const { limits, rate, endpoints, correlations, pageSizes, searchJudged } = loaderData;
+  const { limits, rate, endpoints, correlations, headShape, pageSizes, searchJudged } = loaderData;
   return (
     <div className="max-w-4xl space-y-8">
       <header className="space-y-2">
@@ -198,6 +199,16 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           </h2>
           <p className="text-sm text-slate-700">{e.summary}</p>
           <DocTable head={["request field", "rule"]} cells={["font-mono"]} rows={e.fields.map((f) => [f.field, f.rule])} />
+          {e.id === "operating-point" && (
+            <div id="pump-head-shape">
+              <h3 className="label">Pump head shape</h3>
+              <ul className="list-disc space-y-1 pl-5 text-sm text-slate-700">
+                {headShape.map((r) => (
+                  <li key={r}>{r}</li>
+                ))}
+              </ul>
+            </div>
+          )}
           <div className="grid gap-3 md:grid-cols-2">
             <div>
               <h3 className="label">Example request</h3>

@@ -170,6 +170,16 @@ describe("curve checks before import", () => {
     expect(curveProblems({ ...s, curves: [s.curves[0], up, { ...slant, level: 70 }] })).toEqual([]);
   });
 
+  it("a crossing left of the flow axis's zero and below the head axis's zero reads with the true minus, as every shown quantity", () => {
+    // Invented: a 70 % line straight down at u 80, (80 − 100) / 5 = −4 m³/h; a 74 % line from (30, 450) to (130, 630) meets it at
+    // v 540, (500 − 540) / 8 = −5 m on this paper (construction). Before: "at -4.00 m³/h, -5.00 m" (fmtNum's ASCII hyphen).
+    const up: Curve = { id: 2, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 70, closed: false, points: [{ u: 80, v: 300 }, { u: 80, v: 600 }] };
+    const slant: Curve = { id: 3, panelId: 1, kind: "contour", impellerMm: NaN, speedRpm: 2900, level: 74, closed: false, points: [{ u: 30, v: 450 }, { u: 130, v: 630 }] };
+    const [problem] = curveProblems(withCurves([curve(1, 1, 250, 50), up, slant]));
+    expect(problem.message).toMatch(/^Contour 3 \(74 %\) crosses Contour 2 \(70 %\) at −4\.00 m³\/h, −5\.00 m: /); // source: construction (above)
+    expect(problem.message).not.toMatch(/-\d/);
+  });
+
   it("leaves no impeller on any curve alone (the CSV then has no impeller column)", () => {
     expect(curveProblems(withCurves([curve(1, 1, NaN, 50)]))).toEqual([]);
   });

@@ -13,7 +13,7 @@
 // of that level a curve is on to a guess (mixedLevelProblem); two contours of different levels that cross (crossingContours). Each is named beside its curve in the sidebar, and "Check
 // and import" (and the export) wait until none is left.
 import { contoursCrossing, impellerGiven, inCsv, refusedBlankKeys, toData, type Calibration, type RefusedBlank } from "~/lib/tracer";
-import { fmtNum } from "~/lib/shared/format";
+import { fmtNumShown as fmtNum } from "~/lib/shared/format"; // "−" as every shown quantity
 import { NO_SPEED_WARNING } from "~/lib/import";
 import { QUANTITY_LABEL, calibrations, keyOf, tracedSets, type Curve, type TracerState } from "./model";
 

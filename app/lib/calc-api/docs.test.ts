@@ -5,7 +5,7 @@
 import { describe, expect, test } from "vitest";
 import * as v from "valibot";
 import { runCalc } from "./calculations";
-import { REQUEST_SCHEMAS, calculatorCorrelations, describeRequest, unitOfField, type FieldDoc } from "./docs";
+import { PUMP_HEAD_SHAPE, REQUEST_SCHEMAS, calculatorCorrelations, describeRequest, unitOfField, type FieldDoc } from "./docs";
 import { CALC_ENDPOINT_DOCS } from "./examples";
 import { CALC_ENDPOINTS, CALC_LIMITS, type CalcEndpoint } from "./schemas";
 
@@ -130,5 +130,51 @@ describe("correlations shown come from the engine's registry", () => {
     expect(c.map((x) => x.name)).toHaveLength(2);
     expect(c[0].reynolds[0]).toBe(4000); // Colebrook's turbulent range starts at Re 4000 (registry.ts; common practice)
     expect(c[1].reynolds[1]).toBe(2000); // laminar up to Re 2000 (registry.ts; common practice)
+  });
+});
+
+describe("the pump head shape the page states holds at the API, both sides of each bound", () => {
+  // Invented curves (not any maker's): 40 m at shut-off over 0–0.08 m³/s; the example's system (static 10 m).
+  // Bounds: engine headShape.ts DROOP_MAX 25 %, PEAK_BY 50 %, pumpCurve.ts RISE_TOLERANCE_DEFAULT 10 % (ours).
+  const call = (pts: [number, number][]) => {
+    const body = example("operating-point") as { pump: { points: Json[] } };
+    body.pump.points = pts.map(([q, h]) => ({ flow_m3s: q, head_m: h }));
+    return runCalc("operating-point", body);
+  };
+  const refusedAt = (pts: [number, number][]) => {
+    const out = call(pts);
+    return out.ok ? null : out.errors.map((e) => e.field);
+  };
+  const drooping = (pts: [number, number][]) => {
+    const out = call(pts);
+    expect(out.ok).toBe(true);
+    return out.ok && (out.body as { warnings: { code: string }[] }).warnings.some((w) => w.code === "drooping-curve");
+  };
+
+  test("the page states the numbers it is built from", () => {
+    const text = PUMP_HEAD_SHAPE.rules.join(" ");
+    expect([PUMP_HEAD_SHAPE.droopMax, PUMP_HEAD_SHAPE.peakBy, PUMP_HEAD_SHAPE.allowance]).toEqual([0.25, 0.5, 0.1]);
+    for (const words of ["25 % above the first point's head", "50 % of the way from the first published flow to the last", "above its first point's anywhere, however little, is answered with the warning drooping-curve", "by no more than 10 %", "Refused (400, at pump.points[i].head_m)"]) expect(text).toContain(words);
+  });
+
+  test("a peak 25 % above the first head: taken, with drooping-curve; 1e-6 relative past: refused at its point", () => {
+    expect(drooping([[0, 40], [0.02, 50], [0.04, 45], [0.06, 35], [0.08, 20]])).toBe(true);
+    expect(refusedAt([[0, 40], [0.02, 50 * (1 + 1e-6)], [0.04, 45], [0.06, 35], [0.08, 20]])).toEqual(["pump.points[1].head_m"]);
+  });
+
+  test("a peak (15 %) at the middle of the flows: taken; its flow 1e-6 relative past the middle: refused at the peak", () => {
+    expect(drooping([[0, 40], [0.02, 44], [0.04, 46], [0.06, 35], [0.08, 20]])).toBe(true);
+    expect(refusedAt([[0, 40], [0.02, 44], [0.04 * (1 + 1e-6), 46], [0.06, 35], [0.08, 20]])).toEqual(["pump.points[2].head_m"]);
+  });
+
+  test("the warning for any head above the first: level at 40 m, none; 40 m × (1 + 1e-6), warned; a 2 m hump (5 %), warned", () => {
+    expect(drooping([[0, 40], [0.02, 40], [0.04, 38], [0.06, 30], [0.08, 20]])).toBe(false);
+    expect(drooping([[0, 40], [0.02, 40 * (1 + 1e-6)], [0.04, 38], [0.06, 30], [0.08, 20]])).toBe(true);
+    expect(drooping([[0, 40], [0.02, 42], [0.04, 38], [0.06, 30], [0.08, 20]])).toBe(true);
+  });
+
+  test("a second rise after falling: 10 % of 40 m = 4 m above the lowest since, taken; 1e-6 relative more, refused", () => {
+    expect(refusedAt([[0, 40], [0.02, 46], [0.04, 30], [0.06, 34], [0.08, 20]])).toBeNull();
+    expect(refusedAt([[0, 40], [0.02, 46], [0.04, 30], [0.06, 30 + 4 * (1 + 1e-6)], [0.08, 20]])).toEqual(["pump.points[3].head_m"]);
   });
 });

@@ -2,7 +2,7 @@
 // engine's correlation registry, so a limit on the page cannot drift from the limit enforced.
 // Pure: runs wherever the page renders.
 import type * as v from "valibot";
-import { ROUGHNESS_MAX_OF_DIAMETER, findCorrelation, type DarcyCorrelation } from "~/engine";
+import { DROOP_MAX, PEAK_BY, RISE_TOLERANCE_DEFAULT, ROUGHNESS_MAX_OF_DIAMETER, findCorrelation, type DarcyCorrelation } from "~/engine";
 import { DEFAULT_TEMPERATURE_C, OperatingPointRequest, PipeLossRequest, SystemCurveRequest } from "./schemas";
 
 /** Unit by field-name suffix: the API's one convention (every quantity carries its unit in its name). */
@@ -34,7 +34,7 @@ const MEANING: Record<string, string> = {
   segments: "pipe segments in series",
   flows_m3s: "the flows at which to give the system head",
   pump: "the pump curve",
-  points: "published points, flows strictly increasing",
+  points: "published points, flows strictly increasing; the head's shape as under “Pump head shape”",
   head_m: "pump head",
   efficiency: "a fraction 0–1 (0.75, not 75)",
   system: "the system the pump works in",
@@ -139,3 +139,25 @@ export function calculatorCorrelations(): { name: string; formula: string; reyno
     return { name: c.name, formula: c.formula, reynolds: c.validity.reynolds, relativeRoughness: c.validity.relativeRoughness, reference: c.reference };
   });
 }
+
+const pct = (x: number) => `${Math.round(x * 1000) / 10} %`;
+
+/**
+ * The pump head shape the operating-point calculator takes, warns of and refuses (engine headShape.ts, at the default
+ * rise allowance the API's curves are built with, pumpCurve.ts RISE_TOLERANCE_DEFAULT), its numbers from the engine's
+ * constants so the page cannot drift from the rule (docs.test.ts proves each at the API, both sides).
+ */
+export const PUMP_HEAD_SHAPE = {
+  /** A rise above the lowest head before it taken as rounding, fraction of the first point's head. */
+  allowance: RISE_TOLERANCE_DEFAULT,
+  /** A drooping curve's peak at most this far above the first point's head (fraction). */
+  droopMax: DROOP_MAX,
+  /** The peak reached by this fraction of the published flows (first to last flow). */
+  peakBy: PEAK_BY,
+  rules: [
+    `Falling: from the first point on, a head may rise above the lowest head before it by no more than ${pct(RISE_TOLERANCE_DEFAULT)} of the first point's head (rounding of published values); a hump within that is taken wherever it lies.`,
+    `Drooping: the head may rise from the first point to one peak at most ${pct(DROOP_MAX)} above the first point's head, reached by ${pct(PEAK_BY)} of the way from the first published flow to the last (the first half), then fall, rising again by no more than the ${pct(RISE_TOLERANCE_DEFAULT)} above the lowest head since.`,
+    `A curve whose head lies above its first point's anywhere, however little, is answered with the warning drooping-curve: the pump cannot start against a system head above its first head, and a system curve may cross it twice (status multiple or no_intersection).`,
+    `Refused (400, at pump.points[i].head_m): a head more than ${pct(DROOP_MAX)} above the first point's head; a second rise of more than ${pct(RISE_TOLERANCE_DEFAULT)} after falling; a head rising more than ${pct(RISE_TOLERANCE_DEFAULT)} above the first point's whose highest point lies past the first half of the flows (a system curve, or columns swapped). Each limit is judged to 1 part in 10⁸ of it.`,
+  ],
+} as const;

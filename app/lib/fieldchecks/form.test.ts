@@ -65,6 +65,18 @@ describe("parseCheckFields: the fluid temperature follows the selection's liquid
     expect(at(custom, 392.01, "F").ok).toBe(false);
   });
 
+  it("the verdict flips exactly at the stated ends, as typed: 392.000000001 °F and −4.000000001 °F refused, 391.999999999 °F taken", () => {
+    // Before, a slack of 1e-9 °C on the converted value took 392.000000001 °F (200.00000000056 °C) and −4.000000001 °F.
+    // °F = °C × 9/5 + 32 by definition: 200 °C = 392 °F, −20 °C = −4 °F (arithmetic).
+    const high = at(custom, 392.000000001, "F");
+    expect(high.ok || high.errors.temperature).toMatch(/^Fluid temperature is too high: the form takes −4 to 392 °F, not 392\.000000001 °F — /);
+    const low = at(custom, -4.000000001, "F");
+    expect(low.ok || low.errors.temperature).toMatch(/^Fluid temperature is too low: the form takes −4 to 392 °F, not −4\.000000001 °F — /);
+    const inside = at(custom, 391.999999999, "F");
+    expect(inside.ok).toBe(true);
+    if (inside.ok) expect(inside.readings.temperatureC).toBeCloseTo(200, 8);
+  });
+
   it("the field's hint says the same range in the unit chosen", () => {
     expect(temperatureRangeText(water, "C")).toBe("0 to 100 °C");
     expect(temperatureRangeText(water, "F")).toBe("32 to 212 °F");

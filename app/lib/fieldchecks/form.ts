@@ -173,14 +173,18 @@ export function temperatureLimitsC(liquid: LiquidKind): { min: number; max: numb
  * @param unit temperature unit id (°C, °F)
  */
 export function temperatureRangeText(liquid: LiquidKind, unit: string): string {
+  const show = (x: number) => String(x).replace("-", "−");
+  return temperatureEndsShown(liquid, unit).map(show).join(" to ") + ` ${unitLabel("temperature", unit)}`;
+}
+
+/** The range's ends as the hint and the refusal state them, in the unit typed (to 2 decimals: −4 and 392 °F, 473.15 K). */
+function temperatureEndsShown(liquid: LiquidKind, unit: string): [number, number] {
   const { min, max } = temperatureLimitsC(liquid);
-  const show = (c: number) => String(Number(fromSI("temperature", unit, c).toFixed(2))).replace("-", "−");
-  return `${show(min)} to ${show(max)} ${unitLabel("temperature", unit)}`;
+  const shown = (c: number) => Number(fromSI("temperature", unit, c).toFixed(2));
+  return [shown(min), shown(max)];
 }
 
 const MAX_NOTES = 4000;
-/** A temperature this close to an end of the range (°C) is on it: far below any thermometer, above a conversion's rounding. */
-const END_SLACK_C = 1e-9;
 
 /**
  * Reads the raw form into SI readings, with a message per bad field. Limits are plausibility
@@ -306,14 +310,17 @@ export function parseCheckFields(raw: Record<string, unknown>, liquid: LiquidKin
 
   let temperatureC = num("temperature", "the fluid temperature", "temperature", tUnit);
   const tLimits = temperatureLimitsC(liquid);
-  // A reading typed as an end the hint shows is that end: 392 °F converts to 200.00000000000003 °C, and was refused as
-  // "too high: the form takes −4 to 392 °F" (the conversion's last bit, not the reading).
-  for (const end of [tLimits.min, tLimits.max]) if (temperatureC !== null && Math.abs(temperatureC - end) <= END_SLACK_C) temperatureC = end;
-  if (temperatureC !== null && (temperatureC < tLimits.min || temperatureC > tLimits.max)) {
+  // Judged as typed, in the unit typed, against the ends the hint states there, exactly: 392 °F is taken and
+  // 392.000000001 °F refused (a slack of 1e-9 °C on the converted value took it); a reading taken is kept within the
+  // range in °C (392 °F converts to 200.00000000000003 °C: the conversion's last bit, not the reading).
+  if (temperatureC !== null) {
     // The number as typed (read again: −4 °F through °C and back is −3.9999999999999964), in the unit typed.
     const typed = decimalField(f.temperature ?? "", "temperature", "", {}) ?? fromSI("temperature", tUnit, temperatureC);
-    errors.temperature = `Fluid temperature is too ${temperatureC < tLimits.min ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)}, not ${numberAsTyped(typed)} ${unitLabel("temperature", tUnit)} — ${tLimits.rule}.`;
-    temperatureC = null;
+    const [lo, hi] = temperatureEndsShown(liquid, tUnit);
+    if (typed < lo || typed > hi) {
+      errors.temperature = `Fluid temperature is too ${typed < lo ? "low" : "high"}: the form takes ${temperatureRangeText(liquid, tUnit)}, not ${numberAsTyped(typed)} ${unitLabel("temperature", tUnit)} — ${tLimits.rule}.`;
+      temperatureC = null;
+    } else temperatureC = Math.min(tLimits.max, Math.max(tLimits.min, temperatureC));
   }
   const notes = f.notes ?? "";
   if (notes.length > MAX_NOTES) errors.notes = `Keep the notes under ${MAX_NOTES} characters.`;

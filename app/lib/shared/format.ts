@@ -11,9 +11,18 @@
  */
 export { fmtNum, fmtNumExact, fmtPct, fmtPctExact } from "~/engine/quantityText";
 
+/**
+ * A number shown to a reader in a text, as {@link fmtNum} with the true minus sign "−" (U+2212) of every shown quantity
+ * (quantityText.ts `trueMinus`, decision "numtext"): "−4.00" where fmtNum writes "-4.00". Not for CSV, JSON or a form's
+ * value (fmtNum's ASCII stays there; the forms' reader takes both, shared/decimal.ts `readDecimal`).
+ * @param x the number, in any unit
+ * @param digits decimals wanted instead (count), as fmtNum
+ */
+export const fmtNumShown = (x: number | null | undefined, digits?: number): string => trueMinus(fmtNum(x, digits));
+
 /** A whole number with thousands separators, e.g. 12345 → "12,345" (the engine's, so a range's end in a refusal groups the same: `groupThousands`). */
 export { fmtInt, groupThousands } from "~/engine/quantityText";
-import { groupThousands } from "~/engine/quantityText";
+import { fmtNum, groupThousands, trueMinus } from "~/engine/quantityText";
 
 /**
  * A number as it was typed, for a refusal or a range's end: every digit of it (the shortest text that reads back as it,

@@ -24,7 +24,7 @@
  * tracer page (`peakWarning`) and in the source line the revision's note carries (`peakNote`, short:
  * the line has `SOURCE_MAX` characters).
  */
-import { fmtNum } from "~/lib/shared/format";
+import { fmtNumShown as fmtNum } from "~/lib/shared/format"; // "−" as every shown quantity
 import { impellerGiven } from "./to-csv";
 
 /** One head curve's innermost contour span (flows in the flow axis's unit). */
