@@ -35,7 +35,7 @@
  */
 import type { CurvePoint, CurveSet } from "./curve-schema";
 import type { Cell, LongRow } from "./mapping";
-import { parseNumber, underflows } from "./numbers";
+import { parseNumber, strayInnerSpace, underflows } from "./numbers";
 import { NPSHR_SMALL, npshrSmallReason } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
@@ -136,7 +136,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         const code = Number.isNaN(x) ? "not-a-number" : x < 0 ? "negative" : positive && x === 0 ? "zero" : null;
         if (code) {
           const what = code === "not-a-number"
-            ? underflows(cell.raw, opts.decimalComma) ? "is out of range: too small to be stored (it would read as 0); write 0 if zero is meant" : "is not a number"
+            ? underflows(cell.raw, opts.decimalComma) ? "is out of range: too small to be stored (it would read as 0); write 0 if zero is meant"
+              : strayInnerSpace(cell.raw) ? "is not a number: a space inside a number only groups thousands in threes (1 450), so this one is not dropped — correct the cell" : "is not a number"
             : code === "negative" ? "is negative" : "must be greater than zero";
           bad(cell.column, code, `${FIELD_LABEL[field]} “${cell.raw.trim()}” ${what}`);
           // Head and power below zero may be a run-out point past zero head: kept aside for the curve check.
