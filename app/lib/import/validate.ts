@@ -277,7 +277,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     for (const f of dropped)
       add(lr.line, lr.cells[f]!.column, "zero-dropped",
         `${FIELD_LABEL[f]} 0 at shutoff (zero flow) left out: ${f === "power" ? "shaft power" : "NPSHr"} is above zero on a pump curve; the point is kept without it`, key, "warning");
-    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw });
+    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw, powerRaw: lr.cells.power?.raw });
   }
 
   // per-curve sequence checks (curve-sequence.ts)
@@ -292,7 +292,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
   // fewer than 3 good points, or whose best efficiency or maker's minimum flow is wrong (no point to drop: the column's
   // unit or values are wrong), or that rises along most of its length (curve-rising: the curve is wrong), is kept out (the later copy of a duplicate is never built).
-  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "min-flow" || code === "curve-rising";
+  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "power-implausible" || code === "min-flow" || code === "curve-rising";
   const badKeys = new Set(
     problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
   );
