@@ -33,7 +33,9 @@ export type ProblemCode =
   | "efficiency-fraction"
   | "model-line-break"
   | "power-below-hydraulic"
-  | "power-implausible";
+  | "power-implausible"
+  | "key-stray"
+  | "header-repeated";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */
