@@ -138,7 +138,7 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
     if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
       const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
       if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
-        add(r.line, null, "inconsistent",
+        add(r.line, b.effColumn, "inconsistent",
           `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
           key, "warning");
     }
