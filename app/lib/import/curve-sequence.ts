@@ -57,6 +57,13 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
   let bestPower = -1; // best efficiency the accepted points' powers imply (ρgQH/P, point-rules.ts), and its line
   let bestPowerLine = 0;
   const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
+  // Flows written from high to low on every row (3 or more): the curve read in rising order, said once (flow-descending).
+  if (b.rows.length >= 3 && b.rows.every((r, k) => k === 0 || r.point.flow < b.rows[k - 1].point.flow)) {
+    const [hi, lo] = [b.rows[0], b.rows[b.rows.length - 1]];
+    add(hi.line, hi.flowColumn, "flow-descending",
+      `flow falls on every row of this curve, from ${qt("flow", hi.point.flow)} (line ${hi.line}) to ${qt("flow", lo.point.flow)} (line ${lo.line}): its points are read in rising order of flow, as a curve runs (no point changed)`, key, "warning");
+    b.rows.reverse();
+  }
   // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
   // a negative head followed by ordinary points is an error as before.
   let tail = b.rows.length;

@@ -35,7 +35,8 @@ export type ProblemCode =
   | "power-below-hydraulic"
   | "power-implausible"
   | "key-stray"
-  | "header-repeated";
+  | "header-repeated"
+  | "flow-descending";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */
