@@ -25,6 +25,9 @@ import { checkPumpPoints } from "./pumpPoints.ts";
 
 export { checkPumpPoints };
 
+/** The density a curve's power column refers to unless said otherwise, kg/m³: water, 1000 (common practice for test data). The importer judges powers at it (import/point-rules.ts). */
+export const DEFAULT_POWER_DENSITY = 1000;
+
 /** One point of a published curve (SI). */
 export interface PumpPoint {
   /** Flow, m³/s. */
@@ -151,7 +154,7 @@ export function createPumpCurve(input: PumpCurveInput): PumpCurve {
     warnings.push({ code: "drooping-curve", message: `head rises from ${first} before falling (drooping curve): a system curve may cross it twice, and the point judged is the one the pump reaches from rest, started against its closed check valve (the first crossing where its head falls below the system's); a system head above ${qt("head", h0)} there leaves it unable to start` });
   }
   const opt = (name: string, v: number | undefined) => (v === undefined || v === null ? null : requirePositive(name, v));
-  const powerDensity = requirePositive("powerDensity", input.powerDensity ?? 1000);
+  const powerDensity = requirePositive("powerDensity", input.powerDensity ?? DEFAULT_POWER_DENSITY);
   const curve: PumpCurve = {
     points: clean,
     flowMin: clean[0].flow,

@@ -6,7 +6,7 @@
  */
 import { EngineInputError, requirePositive } from "./errors.ts";
 import { evalCubic, fritschCarlsonTangents, hermiteIn, monotoneCubic, type MonotoneCubic } from "./interp.ts";
-import { checkPumpPoints, RISE_TOLERANCE_DEFAULT, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
+import { checkPumpPoints, DEFAULT_POWER_DENSITY, RISE_TOLERANCE_DEFAULT, type PumpCurve, type PumpCurveInput } from "./pumpCurve.ts";
 import { npshrFlow } from "./npshrEnds.ts";
 import { G0 } from "./units.ts";
 
@@ -189,7 +189,7 @@ export function prepareSearchIndex(sets: readonly CurveSet[]): SearchIndex {
       sp = optional("speed", input.speed); dia = optional("impellerDiameter", input.impellerDiameter);
       dMin = optional("minDiameter", input.minDiameter); dMax = optional("maxDiameter", input.maxDiameter);
       if (dMin > 0 && dMax > 0 && dMin > dMax) throw new EngineInputError("minDiameter", "must not exceed maxDiameter");
-      rhoP = requirePositive("powerDensity", input.powerDensity ?? 1000);
+      rhoP = requirePositive("powerDensity", input.powerDensity ?? DEFAULT_POWER_DENSITY);
     } catch (e) {
       rejected.push({ id: String(s?.id), reason: e instanceof Error ? e.message : String(e) });
       continue;

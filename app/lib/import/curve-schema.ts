@@ -6,7 +6,7 @@
  * plausible best efficiency, and a maker's minimum flow below the last published flow (min-flow.ts). Pure.
  */
 import * as v from "valibot";
-import { BEST_EFFICIENCY, efficiencyPlausible, importHeadShape, RISE_FRACTION } from "./point-rules";
+import { BEST_EFFICIENCY, efficiencyPlausible, importHeadShape, POWER_EFFICIENCY_MAX, powerEfficiency, RISE_FRACTION } from "./point-rules";
 import { DROOP_MAX } from "../../engine/headShape.ts";
 import { MIN_FLOW_RULE, minFlowFits } from "./min-flow";
 
@@ -55,6 +55,17 @@ export const CurveSetSchema = v.pipe(
     const best = c.points.reduce((m, p) => Math.max(m, p.efficiency ?? -1), -1);
     return best <= 0 || efficiencyPlausible(best);
   }, `best efficiency must lie within ${BEST_EFFICIENCY.min * 100}–${BEST_EFFICIENCY.max * 100} %`),
+  // Shaft power against ρgQH (point-rules.ts powerEfficiency): never below it at a point, and implying a best efficiency of 5 % or more.
+  v.check((c) => {
+    let best = -1;
+    for (const p of c.points) {
+      if (p.power === undefined || !(p.flow > 0)) continue;
+      const eta = powerEfficiency(p.flow, p.head, p.power);
+      if (eta > POWER_EFFICIENCY_MAX) return false;
+      best = Math.max(best, eta);
+    }
+    return !(best > 0 && best < BEST_EFFICIENCY.min * (1 - 1e-9));
+  }, `shaft power must not be below the hydraulic power ρgQH, and must imply a best efficiency of ${BEST_EFFICIENCY.min * 100} % or more`),
 );
 
 export type CurvePoint = v.InferOutput<typeof CurvePointSchema>;

@@ -12,7 +12,10 @@ import type { CurvePoint, CurveSet } from "./curve-schema";
 import { constantPowerReason, PowerRun } from "./constant-power";
 import { fractionsAmongPercents } from "./efficiency-fraction";
 import type { MinFlowCells } from "./min-flow";
-import { droopingReason, efficiencyPlausible, headRefusalReason, implausibleEfficiencyReason, importHeadShape } from "./point-rules";
+import {
+  BEST_EFFICIENCY, droopingReason, efficiencyPlausible, headRefusalReason, implausibleEfficiencyReason, implausiblePowerReason, importHeadShape,
+  powerBelowHydraulicReason, powerEfficiency, POWER_EFFICIENCY_MAX,
+} from "./point-rules";
 import type { HeadShape } from "../../engine/headShape.ts";
 import type { Problem, ProblemCode } from "./types";
 import type { Unit } from "./units-in-headers";
@@ -38,8 +41,8 @@ export interface Building {
   effUnit: Unit | null;
   /** The power column's header (for the constant-power check), or null without one. */
   powerColumn: string | null;
-  /** effRaw: the efficiency cell as written (for efficiency-fraction's message). */
-  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; effRaw?: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
+  /** effRaw, powerRaw: the efficiency and power cells as written (for efficiency-fraction's and power-below-hydraulic's messages). */
+  rows: Array<{ line: number; point: CurvePoint; flowColumn: string; headColumn: string; effRaw?: string; powerRaw?: string; runOut?: Array<Omit<Problem, "curveKey">> }>;
 }
 
 export type AddProblem = (row: number, column: string | null, code: ProblemCode, reason: string, curve: string | null, severity?: "error" | "warning") => void;
@@ -51,7 +54,16 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
   let firstLine = 0;
   let best = -1; // best efficiency of the accepted points, and its line
   let bestLine = 0;
+  let bestPower = -1; // best efficiency the accepted points' powers imply (ρgQH/P, point-rules.ts), and its line
+  let bestPowerLine = 0;
   const powers = new PowerRun(); // the accepted points' powers: one figure at every point is a rating (constant-power.ts)
+  // Flows written from high to low on every row (3 or more): the curve read in rising order, said once (flow-descending).
+  if (b.rows.length >= 3 && b.rows.every((r, k) => k === 0 || r.point.flow < b.rows[k - 1].point.flow)) {
+    const [hi, lo] = [b.rows[0], b.rows[b.rows.length - 1]];
+    add(hi.line, hi.flowColumn, "flow-descending",
+      `flow falls on every row of this curve, from ${qt("flow", hi.point.flow)} (line ${hi.line}) to ${qt("flow", lo.point.flow)} (line ${lo.line}): its points are read in rising order of flow, as a curve runs (no point changed)`, key, "warning");
+    b.rows.reverse();
+  }
   // Run-out: the trailing rows of a curve whose head went below zero are dropped with a warning;
   // a negative head followed by ordinary points is an error as before.
   let tail = b.rows.length;
@@ -81,6 +93,12 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
       continue;
     }
     const p = r.point;
+    // a power below the hydraulic power ρgQH: an efficiency above 100 % (point-rules.ts), the point left out
+    const powerEta = p.power !== undefined && p.flow > 0 ? powerEfficiency(p.flow, p.head, p.power) : -1;
+    if (powerEta > POWER_EFFICIENCY_MAX) {
+      add(r.line, b.powerColumn, "power-below-hydraulic", powerBelowHydraulicReason(r.powerRaw ?? String(p.power), p.flow, p.head, p.power!), key);
+      continue;
+    }
     if (prev) {
       if (p.flow === prev.point.flow) {
         add(r.line, r.flowColumn, "duplicate-flow", `flow equals the flow on line ${prev.line}: a curve has one point per flow`, key);
@@ -114,6 +132,10 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
     }
     b.set.points.push(p);
     if (p.power !== undefined) powers.add(p.flow, p.power, r.line);
+    if (powerEta > bestPower) {
+      bestPower = powerEta;
+      bestPowerLine = r.line;
+    }
     prev = r;
     if (p.efficiency !== undefined && p.efficiency > best) {
       best = p.efficiency;
@@ -123,7 +145,7 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
     if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
       const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
       if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
-        add(r.line, null, "inconsistent",
+        add(r.line, b.effColumn, "inconsistent",
           `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
           key, "warning");
     }
@@ -137,6 +159,8 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
   }
   if (best > 0 && !efficiencyPlausible(best))
     add(bestLine, b.effColumn, "efficiency-implausible", implausibleEfficiencyReason(best, b.effUnit, b.effColumn ?? "efficiency"), key);
+  if (bestPower > 0 && bestPower < BEST_EFFICIENCY.min * (1 - 1e-9))
+    add(bestPowerLine, b.powerColumn, "power-implausible", implausiblePowerReason(bestPower, b.powerColumn ?? "power"), key);
   if (powers.flat())
     add(powers.firstLine, b.powerColumn, "power-constant", constantPowerReason(powers, key, b.powerColumn ?? "power"), key, "warning");
   if (b.set.points.length < 3)

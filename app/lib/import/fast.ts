@@ -12,7 +12,7 @@ import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
-import { efficiencyPlausible, importHeadShape, NPSHR_SMALL } from "./point-rules";
+import { BEST_EFFICIENCY, efficiencyPlausible, importHeadShape, NPSHR_SMALL, POWER_EFFICIENCY_MAX, powerEfficiency } from "./point-rules";
 import type { HeadShape } from "../../engine/headShape.ts";
 import { FRACTION_BELOW } from "./efficiency-fraction";
 import { looksLikeRating } from "./constant-power";
@@ -132,6 +132,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
   let shape: HeadShape | null = null; // the current curve's head shape (the engine's rule, point-rules.ts), the flow before
   let prevFlow = 0;
   let best = -1; // best efficiency of the current curve (-1: none given)
+  let bestPower = -1; // best efficiency its powers imply, ρgQH/P (point-rules.ts; -1: none)
+  const powerImplausible = () => bestPower > 0 && bestPower < BEST_EFFICIENCY.min * (1 - 1e-9);
   // the current curve's powers: how many, their least and largest, the flows of the first and last (constant-power.ts)
   let powCount = 0, powMin = Infinity, powMax = -Infinity, powFirstFlow = NaN, powLastFlow = NaN;
   let curPoints = 0;
@@ -218,6 +220,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       if (shape && (shape.drooping || shape.end())) return null; // a drooping curve's warning, or a curve rising along its length
       if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null; // a maker's minimum flow not below the curve's end
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
+      if (powerImplausible()) return null; // powers far above ρgQH at every point: W read as kW
       if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
@@ -228,6 +231,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       curImpeller = impeller;
       curPoints = 0;
       best = -1;
+      bestPower = -1;
       powCount = 0;
       powMin = Infinity;
       powMax = -Infinity;
@@ -261,6 +265,11 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       shape!.take(head, flow, line);
     }
     if (eff > best) best = eff; // NaN (no efficiency) is never above
+    if (pow === pow && flow > 0) {
+      const eta = powerEfficiency(flow, head, pow);
+      if (eta > POWER_EFFICIENCY_MAX) return null; // a power below the hydraulic power: an error the full path names
+      if (eta > bestPower) bestPower = eta;
+    }
     if (eff === eff && pow === pow && pow > 0 && flow > 0) {
       const eta = (density * G_STANDARD * flow * head) / pow;
       if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
@@ -275,7 +284,7 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     prevFlow = flow;
     curPoints++;
   }
-  if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best))) return null;
+  if (pointRows === 0 || curPoints < 3 || (best > 0 && !efficiencyPlausible(best)) || powerImplausible()) return null;
   if (shape && (shape.drooping || shape.end())) return null;
   if (cur?.minFlow !== undefined && !minFlowFits(cur.minFlow, prevFlow)) return null;
   if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null;

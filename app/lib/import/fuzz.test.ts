@@ -20,6 +20,7 @@ const CODE_SET = {
   "no-point-values": true, "extra-cells": true, "csv-syntax": true, "mapping": true, "header-changed": true, "run-out": true,
   "inconsistent": true, "zero-dropped": true, "efficiency-implausible": true, "power-constant": true, "npshr-small": true, "key-not-given": true,
   "min-flow": true, "model-line-break": true, "efficiency-fraction": true, "curve-rising": true, "drooping-curve": true,
+  "power-below-hydraulic": true, "power-implausible": true, "key-stray": true, "header-repeated": true, "flow-descending": true,
 } satisfies Record<ProblemCode, true>;
 const CODES = Object.keys(CODE_SET) as ProblemCode[];
 
@@ -206,12 +207,12 @@ describe("Windows-1252 (Latin-1) text", () => {
 
 describe("huge and non-finite numbers", () => {
   const H = "model,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m\n";
-  const ok = (q: string, h: string, p = "1") => `X,2900,200,${q},${h},50,${p},1`;
+  const ok = (q: string, h: string, p = "0.1") => `X,2900,200,${q},${h},50,${p},1`;
 
   it('"NaN", "Infinity", "-Infinity" and "inf" are not numbers: each named on its row', () => {
     const t = H + [ok("0", "10"), ok("NaN", "9"), ok("Infinity", "9"), ok("-Infinity", "9"), ok("inf", "9"), ok("1", "9"), ok("2", "8")].join("\n");
     const a = analyse(t);
-    // (the P/η consistency warnings of these made-up rows, and the power-constant warning of their filler power of 1 kW on
+    // (the P/η consistency warnings of these made-up rows, and the power-constant warning of their filler power of 0.1 kW on
     // every row, are not the subject here)
     expect(a.result.problems.filter((p) => p.code !== "inconsistent" && p.code !== "power-constant").map((p) => [p.row, p.column, p.code])).toEqual([
       [3, "flow_m3h", "not-a-number"], [4, "flow_m3h", "not-a-number"], [5, "flow_m3h", "not-a-number"], [6, "flow_m3h", "not-a-number"],
@@ -229,7 +230,7 @@ describe("huge and non-finite numbers", () => {
   it("1e309 and an overflowing 1e308 kW are refused, never accepted as Infinity", () => {
     const t = H + [ok("0", "10"), ok("1e309", "9"), ok("2", "8", "1e308"), ok("3", "7"), ok("4", "6")].join("\n");
     const a = analyseCsv(t);
-    expect(a.result.problems.filter((p) => p.code !== "inconsistent" && p.code !== "power-constant").map((p) => [p.row, p.column, p.severity])).toEqual([[3, "flow_m3h", "error"], [4, "power_kw", "error"]]); // source: construction (P/η consistency and the filler power of 1 kW on every row not the subject)
+    expect(a.result.problems.filter((p) => p.code !== "inconsistent" && p.code !== "power-constant").map((p) => [p.row, p.column, p.severity])).toEqual([[3, "flow_m3h", "error"], [4, "power_kw", "error"]]); // source: construction (P/η consistency and the filler power of 0.1 kW on every row not the subject)
     expectWellFormed(a, t);
   });
 });

@@ -72,12 +72,12 @@ describe("header units in whole files", () => {
     ["Input power (kW),Shaft power (kW)", "Shaft power (kW)"], // source: same (was: the first, the input power, mapped)
     ["Motor kW,Absorbed power (kW)", "Absorbed power (kW)"], // source: common practice (absorbed power is P2)
   ])("%s: the shaft power column “%s” is mapped, the input power column left out without a warning", (powers, shaft) => {
-    // Input power 1.0/1.2/1.4 kW and shaft power 0.5/0.6/0.7 kW (invented), in the header's order.
-    const rows = [["0,20", "1.0", "0.5"], ["10,19", "1.2", "0.6"], ["20,17", "1.4", "0.7"]];
+    // Input power 0.7/1.0/1.6 kW and shaft power 0.5/0.8/1.3 kW (invented; above ρgQH, 0.518 and 0.926 kW at 10 and 20 m³/h), in the header's order.
+    const rows = [["0,20", "0.7", "0.5"], ["10,19", "1.0", "0.8"], ["20,17", "1.6", "1.3"]];
     const a = analyseCsv(file(`Speed rpm,Flow m3/h,Head m,${powers}`, "2900", rows.map(([qh, p1, p2]) => (powers.startsWith(shaft) ? `${qh},${p2},${p1}` : `${qh},${p1},${p2}`))));
     expect(a.mapping.columns.filter((c) => c.field === "power").map((c) => c.header)).toEqual([shaft]); // source: see the row
     expect(a.result.problems).toEqual([]); // source: hand-written clean file (P2 given, so nothing to warn about)
-    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([500, 600, 700]); // source: the P2 column's 0.5, 0.6, 0.7 kW (SI prefixes)
+    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([500, 800, 1300]); // source: the P2 column's 0.5, 0.8, 1.3 kW (SI prefixes)
   });
 
   it("a P1 column mapped to power by hand is read as the user says, with a warning", () => {
@@ -124,13 +124,14 @@ describe("header units in whole files", () => {
   });
 
   it("a hydraulic power column mapped to power by hand is read as the user says, with a warning", () => {
-    const text = file("Speed rpm,Flow m3/h,Head m,Phyd kW", "2900", ["0,20,0.1", "10,19,0.517", "20,17,0.925"]);
+    // values above ρgQH at ρ = 1000 kg/m³ (0.518, 0.926 kW): the exact hydraulic power, mapped as shaft power, implies η 100.2 % and is refused (power-hydraulic.test.ts)
+    const text = file("Speed rpm,Flow m3/h,Head m,Phyd kW", "2900", ["0,20,0.1", "10,19,0.6", "20,17,1.0"]);
     const m = analyseCsv(text).suggestedMapping;
     const byHand: Mapping = { ...m, columns: m.columns.map((c) => (c.index === 4 ? { ...c, field: "power" as const, unit: "kW" as const, unitSource: "user" as const } : c)) };
     const a = analyseCsv(text, byHand);
     expect(mappingWarnings(a).map((p) => p.column)).toEqual(["Phyd kW"]); // source: importer rule (a saved or hand-made mapping is warned too)
     expect(mappingWarnings(a)[0].reason).toContain("“Phyd kW” is mapped to shaft power, but its header names the hydraulic power"); // source: same
-    expect(a.result.curveSets[0].points[1].power).toBe(517); // source: the user's mapping (0.517 kW)
+    expect(a.result.curveSets[0].points[1].power).toBe(600); // source: the user's mapping (0.6 kW)
   });
 
   it.each([
@@ -165,14 +166,14 @@ describe("header units in whole files", () => {
   });
 
   it("a units row of imperial gallons, feet, % and bkW: each read as written", () => {
-    const a = analyseCsv("Model,Speed,Flow,Head,Eff,Power\n,1/min,Imp. gpm,(ft),%,bkW\nA,1450,0,100,0,1.0\nA,1450,100,95,60,1.6\nA,1450,200,80,72,2.0\n");
+    const a = analyseCsv("Model,Speed,Flow,Head,Eff,Power\n,1/min,Imp. gpm,(ft),%,bkW\nA,1450,0,100,0,1.0\nA,1450,100,95,60,3.6\nA,1450,200,80,72,5.0\n");
     expect(a.sniff.headers).toEqual(["Model", "Speed 1/min", "Flow Imp. gpm", "Head (ft)", "Eff %", "Power bkW"]); // source: importer rule
     expect(a.mapping.columns.slice(1).map((c) => c.unit)).toEqual(["rpm", "imp gpm", "ft", "%", "kW"]); // source: see the row
     expect(a.result.problems.filter((p) => p.severity === "error")).toEqual([]); // source: hand-written file
     const pt = a.result.curveSets[0].points[1];
     expect(relClose(pt.flow, (100 * 4.54609e-3) / 60)).toBe(true); // source: UK Weights and Measures Act 1985 (imperial gallon 4.54609 L)
     expect(relClose(pt.head, 95 * 0.3048)).toBe(true); // source: NIST SP 811 (foot = 0.3048 m)
-    expect(pt.power).toBe(1600); // source: 1.6 bkW (SI prefixes)
+    expect(pt.power).toBe(3600); // source: 3.6 bkW (SI prefixes; invented above ρgQH, 2.15 kW at 100 Imp. gpm and 95 ft, python3)
   });
 
   it("a units row with a word the field does not take is named as such (a mapping error), not a missing value on every row", () => {

@@ -189,7 +189,8 @@ describe("a motor's power and a rated power are ratings, assumed", () => {
 // In pump literature P_w is the water (hydraulic) power ρ·g·Q·H (common practice); "P_w" may also be "P" with its unit W.
 // Normalising made "P_w" the "p w" of "P (W)": it was read as shaft power in W. The importer does not guess between them.
 describe("P_w / Pw: water power or watts", () => {
-  const rows = ["0,20,100", "10,19,120", "20,17,140"];
+  // invented shaft powers in W above ρgQH (0.518 kW at 10 m³/h and 19 m, 0.926 kW at 20 m³/h and 17 m; ρ = 1000 kg/m³, python3)
+  const rows = ["0,20,1000", "10,19,1200", "20,17,1400"];
   it.each(["P_w", "Pw", "PW"])("“%s” alone is left unmapped with a warning that names both readings and the rule", (header) => {
     const a = analyseCsv(file(`Flow m3/h,Head m,${header}`, rows));
     expect(a.mapping.columns[4].field).toBe("ignore"); // source: ambiguous-power.ts (was: power in W for P_w, hydraulic for Pw)
@@ -226,7 +227,7 @@ describe("P_w / Pw: water power or watts", () => {
     const text = file("Flow m3/h,Head m,P_w", rows);
     const a = analyseCsv(text, byHand(text, 4, { field: "power", unit: "W" }));
     expect(a.result.problems).toEqual([]); // source: ambiguous-power.ts (shaft power is one of its readings)
-    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([100, 120, 140]); // source: the user's unit, W
+    expect(a.result.curveSets[0].points.map((p) => p.power)).toEqual([1000, 1200, 1400]); // source: the user's unit, W
   });
 });
 
@@ -267,11 +268,11 @@ describe("Förderleistung: flow or useful power", () => {
   });
 
   it("mapped to shaft power by hand: a warning, since neither reading is shaft power", () => {
-    const text = file("Flow m3/h,Head m,Förderleistung", ["0,20,0.4", "10,19,0.5", "20,17,0.9"]);
+    const text = file("Flow m3/h,Head m,Förderleistung", ["0,20,0.4", "10,19,0.8", "20,17,1.3"]); // invented, above ρgQH (0.518, 0.926 kW)
     const a = analyseCsv(text, byHand(text, 4, { field: "power", unit: "kW" }));
     expect(warnings(a).map((p) => p.column)).toEqual(["Förderleistung"]); // source: importer rule (a hand-made or saved mapping is warned too)
     expect(warnings(a)[0].reason).toContain("“Förderleistung” is mapped to shaft power, but “Förderleistung” is either the flow capacity"); // source: same
-    expect(a.result.curveSets[0].points[1].power).toBe(500); // source: the user's mapping (0.5 kW)
+    expect(a.result.curveSets[0].points[1].power).toBe(800); // source: the user's mapping (0.8 kW)
   });
 });
 

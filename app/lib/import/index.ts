@@ -60,6 +60,13 @@ function emptyReason(sniff: SniffResult): string {
   return `the file has no data rows: line ${sniff.headerLine || 1} (“${shown.length > 80 ? `${shown.slice(0, 79)}…` : shown}”) is all it holds, read as its header; a curve file has rows of flow and head below it`;
 }
 
+/** The same cells, each trimmed and without regard to case (a header written again). */
+function sameCells(a: string[], b: string[]): boolean {
+  const n = Math.max(a.length, b.length);
+  for (let i = 0; i < n; i++) if ((a[i] ?? "").trim().toLowerCase() !== (b[i] ?? "").trim().toLowerCase()) return false;
+  return true;
+}
+
 export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions = {}): AnalyseResult {
   const given = mapping === undefined ? undefined : v.parse(MappingSchema, mapping);
   const sniff = sniffCsv(text, given?.source ?? {});
@@ -75,10 +82,15 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
 
   let allRows: SourceRow[] | null = null;
   let parseIssues: ParseIssue[] = [];
+  let repeats: SourceRow[] = []; // the header row written again below it (two exports joined): skipped with a warning
   const parseAll = () => {
     if (!allRows) {
       const parsed = parseRows(body, { delimiter: sniff.delimiter });
-      allRows = parsed.rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells));
+      const header = sniff.headerLine ? parsed.rows[sniff.headerRowIndex] : undefined;
+      const same = (r: SourceRow) => header !== undefined && sameCells(r.cells, header.cells);
+      const data = parsed.rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells));
+      repeats = data.filter(same);
+      allRows = repeats.length ? data.filter((r) => !same(r)) : data;
       parseIssues = parsed.issues;
     }
     return allRows;
@@ -106,7 +118,11 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const empty: Problem[] = rows.length === 0 ? [{ row: headerLine || 1, column: null, reason: emptyReason(sniff), severity: "error", code: "missing-value", curveKey: null }] : [];
   // A rating column mapped to power all the same is kept (the user's choice); its warning gets the values, curve by curve (rated-values.ts).
   const said = empty.length ? [] : fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
-  const problems = [...said, ...empty, ...csvIssues, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
+  const repeated: Problem[] = repeats.map((r) => ({
+    row: r.line, column: null, severity: "warning", code: "header-repeated", curveKey: null,
+    reason: `line ${r.line} repeats the header of line ${headerLine} cell for cell (two exports joined into one file?): read as a header again and skipped; the rows below it are read by the same columns`,
+  }));
+  const problems = [...said, ...empty, ...csvIssues, ...repeated, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;
   return withRows({
     ...base,

@@ -11,6 +11,8 @@
  */
 import { fmtPct, fmtPctExact, fmtPctLimit, qt, qtExact, qtLimit } from "../../engine/quantityText.ts";
 import { DROOP_MAX, HeadShape, PEAK_BY, type HeadRefusal } from "../../engine/headShape.ts";
+import { DEFAULT_POWER_DENSITY } from "../../engine/pumpCurve.ts";
+import { G0 } from "../../engine/units.ts";
 
 /**
  * The rounding allowance of the head's shape (engine headShape.ts), as a fraction of the curve's first head: a head may
@@ -139,4 +141,41 @@ export function implausibleEfficiencyReason(best: number, unit: string | null, c
     : !low && unit === "fraction" ? "is the column in percent (0–100)? Set its unit to % above, or correct the values"
     : "check the column's unit and its values";
   return `best efficiency of this curve is ${shown} (${read}): ${edge} — ${hint} (a centrifugal pump's best efficiency lies roughly between 20 and 92 %)`;
+}
+
+/**
+ * The efficiency a point's shaft power implies, η = ρ·g·Q·H/P (definition of pump efficiency), at the density the engine reads
+ * a curve's power column at (pumpCurve.ts `DEFAULT_POWER_DENSITY`, water 1000 kg/m³; g = 9.80665 m/s², 3rd CGPM), fraction.
+ * Above 1 the power is below the hydraulic power ρgQH, which no pump gives (the engine warns "power column implies efficiency
+ * above 100 %"): the importer refuses the point (`power-below-hydraulic`). A curve whose best such η is below
+ * BEST_EFFICIENCY.min (5 %) has its power column in the wrong unit, W read as kW (`power-implausible`, set-wide).
+ * @param flow m³/s, above zero @param head m @param power shaft power, W, above zero
+ */
+export function powerEfficiency(flow: number, head: number, power: number): number {
+  return (DEFAULT_POWER_DENSITY * G0 * flow * head) / power;
+}
+
+/** Above this implied efficiency (1, with 1e-9 for rounding) a point's power is below its hydraulic power. */
+export const POWER_EFFICIENCY_MAX = 1 + 1e-9;
+
+/**
+ * Why a power below the hydraulic power is refused, with its numbers and the rule.
+ * @param raw the power cell as written @param flow m³/s @param head m @param power W
+ */
+export function powerBelowHydraulicReason(raw: string, flow: number, head: number, power: number): string {
+  const hyd = power * powerEfficiency(flow, head, power);
+  const eta = powerEfficiency(flow, head, power);
+  return `power “${raw.trim()}” (${qtExact("power", power, [hyd])}) at ${qt("flow", flow)} and ${qt("head", head)} is below the hydraulic power ` +
+    `ρ·g·Q·H = ${qtLimit("power", hyd, [power])} (ρ = ${DEFAULT_POWER_DENSITY} kg/m³, water, as the engine reads power columns; g = ${G0} m/s²): ` +
+    `the efficiency it implies, ${fmtPctExact(eta, [1])}, is above 100 %, which no pump reaches — check the power column's unit (kW, W, hp) and the cell; this point is left out`;
+}
+
+/**
+ * Why a curve's powers are implausibly large: the best efficiency they imply is below BEST_EFFICIENCY.min.
+ * @param best the best implied efficiency, fraction @param column the power column's header
+ */
+export function implausiblePowerReason(best: number, column: string): string {
+  return `the best efficiency this curve's powers imply, ρ·g·Q·H/P (ρ = ${DEFAULT_POWER_DENSITY} kg/m³), is ${fmtPctExact(best, [BEST_EFFICIENCY.min], best < 0.1 ? 2 : 1)}: ` +
+    `below ${fmtPctLimit(BEST_EFFICIENCY.min)} — are the values in “${column}” in W rather than kW, or in another unit? Set the column's unit above, or correct the values ` +
+    "(a centrifugal pump's best efficiency lies roughly between 20 and 92 %, common practice)";
 }

@@ -31,7 +31,12 @@ export type ProblemCode =
   | "key-not-given"
   | "min-flow"
   | "efficiency-fraction"
-  | "model-line-break";
+  | "model-line-break"
+  | "power-below-hydraulic"
+  | "power-implausible"
+  | "key-stray"
+  | "header-repeated"
+  | "flow-descending";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -35,13 +35,14 @@
  */
 import type { CurvePoint, CurveSet } from "./curve-schema";
 import type { Cell, LongRow } from "./mapping";
-import { parseNumber, underflows } from "./numbers";
+import { parseNumber, strayInnerSpace, underflows } from "./numbers";
 import { NPSHR_SMALL, npshrSmallReason } from "./point-rules";
 import type { Problem, ProblemCode } from "./types";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
 import { hasLineBreak, textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { MinFlowCells } from "./min-flow";
+import { strayKeyProblems, type KeyRun } from "./stray-keys";
 import { checkCurve, WATER_20C_DENSITY, type Building } from "./curve-sequence";
 import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
@@ -105,6 +106,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   const runOfBlock = new Map<number, number>();
   const discardedRuns = new Set<number>();
   let runCounter = 0;
+  const keyRuns: KeyRun[] = []; // each block's runs of one key in file order: a key differing on a row or two is named (stray-keys.ts)
+  const keyRunOfBlock = new Map<number, KeyRun>();
 
   const add = (row: number, column: string | null, code: ProblemCode, reason: string, curve: string | null, severity: "error" | "warning" = "error") =>
     problems.push({ row, column, reason, severity, code, curveKey: curve });
@@ -136,7 +139,8 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         const code = Number.isNaN(x) ? "not-a-number" : x < 0 ? "negative" : positive && x === 0 ? "zero" : null;
         if (code) {
           const what = code === "not-a-number"
-            ? underflows(cell.raw, opts.decimalComma) ? "is out of range: too small to be stored (it would read as 0); write 0 if zero is meant" : "is not a number"
+            ? underflows(cell.raw, opts.decimalComma) ? "is out of range: too small to be stored (it would read as 0); write 0 if zero is meant"
+              : strayInnerSpace(cell.raw) ? "is not a number: a space inside a number only groups thousands in threes (1 450), so this one is not dropped — correct the cell" : "is not a number"
             : code === "negative" ? "is negative" : "must be greater than zero";
           bad(cell.column, code, `${FIELD_LABEL[field]} “${cell.raw.trim()}” ${what}`);
           // Head and power below zero may be a run-out point past zero head: kept aside for the curve check.
@@ -150,15 +154,16 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
         bad(cell.column, "not-a-number", `unit ${cell.unit ?? "(none)"} does not fit ${FIELD_LABEL[field]}`);
         return null;
       }
-      if (field === "efficiency" && value * factor > 1 + 1e-9) {
-        bad(cell.column, "efficiency-over-100",
-          cell.unit === "%" ? `efficiency ${value} % is above 100 %` : `efficiency ${value} is above 1 (100 %) — is the column in percent?`);
-        return null;
-      }
       const si = value * factor;
-      // Overflowing text ("1e309", or 1e308 kW once in watts) would reach the database as ±Infinity.
+      // Overflowing text ("1e309", or 1e308 kW once in watts) would reach the database as ±Infinity; said before the efficiency's
+      // limit, so "1e309" is named as written, not as "Infinity %".
       if (!Number.isFinite(si) || Math.abs(si) > 1e12) {
         bad(cell.column, "not-a-number", `${FIELD_LABEL[field]} “${cell.raw.trim()}” is too large to be a real value`);
+        return null;
+      }
+      if (field === "efficiency" && si > 1 + 1e-9) {
+        bad(cell.column, "efficiency-over-100",
+          cell.unit === "%" ? `efficiency ${value} % is above 100 %` : `efficiency ${value} is above 1 (100 %) — is the column in percent?`);
         return null;
       }
       return si;
@@ -217,7 +222,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     if (lastKeyInBlock.get(lr.block) !== key) {
       runOfBlock.set(lr.block, ++runCounter);
       lastKeyInBlock.set(lr.block, key);
+      const kr: KeyRun = { block: lr.block, key, model, speed: speed ?? null, impeller: impeller ?? null, rows: [] };
+      keyRuns.push(kr);
+      keyRunOfBlock.set(lr.block, kr);
     }
+    keyRunOfBlock.get(lr.block)!.rows.push({ line: lr.line, flow: flow ?? null, speed: lr.cells.speed, impeller: lr.cells.impeller });
     const run = runOfBlock.get(lr.block)!;
     if (discardedRuns.has(run)) continue;
 
@@ -276,9 +285,10 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     for (const f of dropped)
       add(lr.line, lr.cells[f]!.column, "zero-dropped",
         `${FIELD_LABEL[f]} 0 at shutoff (zero flow) left out: ${f === "power" ? "shaft power" : "NPSHr"} is above zero on a pump curve; the point is kept without it`, key, "warning");
-    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw });
+    b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw, powerRaw: lr.cells.power?.raw });
   }
 
+  for (const p of strayKeyProblems(keyRuns)) add(p.row, p.column, p.code, p.reason, p.curveKey);
   // per-curve sequence checks (curve-sequence.ts)
   const curveSets: CurveSet[] = [];
   for (const key of order) {
@@ -291,7 +301,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   // skip-curves: any error charged to a curve keeps it out. drop-points: only a curve left with
   // fewer than 3 good points, or whose best efficiency or maker's minimum flow is wrong (no point to drop: the column's
   // unit or values are wrong), or that rises along most of its length (curve-rising: the curve is wrong), is kept out (the later copy of a duplicate is never built).
-  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "min-flow" || code === "curve-rising";
+  const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "power-implausible" || code === "min-flow" || code === "curve-rising";
   const badKeys = new Set(
     problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
   );
