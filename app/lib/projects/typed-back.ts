@@ -83,3 +83,23 @@ export function typedOver(f: Stored, typed: TypedFields | null | undefined): Typ
   }
   return { ...(out as Stored), runs, removeRun };
 }
+
+/** The adjust form's fields (AdjustForm) and the price form's (CandidateCycle), as a refused post carries them back. */
+export const ADJUST_FIELDS = ["method", "ratio", "arrangement", "dutyPumps", "standbyPumps", "motorRating", "serviceFactor", "ieClass"] as const;
+export const PRICE_FIELDS = ["purchasePrice"] as const;
+
+/** One candidate form's fields as posted in a refused post, under the key its error is under (`adj.<id>`, `price.<id>`). */
+export type TypedForm = { key: string; fields: TypedFields };
+
+/** The posted text of `names` (strings only, each cut to TYPED_MAX_CHARS), for the form whose error is under `key`. */
+export function typedCandidateForm(form: FormLike, key: string, names: readonly string[]): TypedForm {
+  const fields: TypedFields = {};
+  for (const name of names) {
+    const x = form.get(name);
+    if (typeof x === "string") fields[name] = x.slice(0, TYPED_MAX_CHARS);
+  }
+  return { key, fields };
+}
+
+/** The typed fields for the form under `key` after a refused post of that form, or undefined (its stored values stand). */
+export const typedFor = (t: TypedForm | null | undefined, key: string): TypedFields | undefined => (t?.key === key ? t.fields : undefined);
