@@ -130,7 +130,8 @@ export default function SystemPage() {
     setDraft(null);
     setTyped(false);
   }, [d]);
-  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
+  // Served as the answer to a refused save (without JavaScript): the typed values shown are not stored, so unsaved at once.
+  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null, Boolean(a?.typed));
   const onInput = () => {
     unsaved.check();
     if (timer.current) clearTimeout(timer.current);
@@ -150,7 +151,7 @@ export default function SystemPage() {
   const storedErrors = d.review && !typed && !Object.keys(a?.errors ?? {}).length ? d.review.fields : {};
   const errors = { ...storedErrors, ...(a?.errors ?? {}), ...liveErrors };
   // After a refused save, every field as typed in that post (the stored values otherwise).
-  const f = typedOver(systemFormValues(d.input, d.unitSystem), a?.typed);
+  const f = typedOver(systemFormValues(d.input, d.unitSystem), a?.typed, d.unitSystem);
   const ro = !d.canWrite;
   return (
     <div className="space-y-4">

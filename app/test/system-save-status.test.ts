@@ -107,6 +107,18 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     expect(again).not.toMatch(/<input id="f-run\.1\.length"[^>]*value="75"/);
   }, 60_000);
 
+  test("a refused save that also pressed \"+ suction run\" (no JavaScript): 400, the added run shown after the posted ones, a fitting count typed kept", async () => {
+    const good = editorPost(defaultSystemInput(), "Save status");
+    const form = { ...good, dutyFlow: "-5", addRun: "suction", "run.1.fit.tee-run": "3" };
+    const res = await postAsBrowser(form);
+    const html = plainHtml(await res.text());
+    expect(res.status).toBe(400);
+    expect(good.runCount).toBe("2"); // the default system's runs: the added run is the third (run.2)
+    expect(html).toMatch(/<input type="hidden" name="runCount" value="3"/);
+    expect(html).toMatch(/<input id="f-run\.2\.name"[^>]*value="Suction run"/); // readSystemForm's name for it
+    expect(html).toMatch(/<input id="f-run\.1\.fit\.tee-run"[^>]*value="3"/);
+  }, 60_000);
+
   test("a refused adjustment or price posted without JavaScript: 400, the page with the error beside that form and its fields as typed", async () => {
     const adj = await postAsBrowser(adjustForm({ ratio: "9x9", serviceFactor: "1.15" }));
     const adjHtml = plainHtml(await adj.text());
