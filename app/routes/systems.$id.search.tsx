@@ -157,7 +157,9 @@ export async function action({ request, params }: Route.ActionArgs) {
     const method = form.get("method");
     r = await addCandidate(viewer, id, formId(form, "curveSetId"), { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" });
   }
-  if (!r.ok) return { error: r.reason };
+  // Refused by the system's candidates as they stand (already one, past the limit): 409, the search page again with why
+  // (RFC 9110 §15.5.10; it answered 200 until helper "formedges").
+  if (!r.ok) return data({ error: r.reason }, { status: 409 });
   throw redirect(`/systems/${id}`);
 }
 
