@@ -7,7 +7,7 @@ import { isRouteErrorResponse, ServerRouter } from "react-router";
 import { renderToPipeableStream } from "react-dom/server";
 import { assertSettings } from "~/lib/shared/env.server";
 import { encodeDocument } from "~/lib/shared/encode-document.server";
-import { allowedMethods, patternOf } from "~/lib/shared/methods";
+import { allowedMethods, allowHeader, patternOf } from "~/lib/shared/methods";
 
 // For app/serve.mjs, which answers these before React Router sees the request (it reads them from the build
 // as it reads startupSettings): methods React Router does not take at all, and cross-site writes; and the shape of its
@@ -46,7 +46,7 @@ export default function handleRequest(request: Request, responseStatusCode: numb
   // React Router's own 405 page (a method it refuses before any middleware: OPTIONS on a page, PROPFIND
   // and the like) carries no Allow: the route's methods from the one table (lib/shared/methods.ts).
   if (responseStatusCode === 405 && !responseHeaders.has("Allow")) {
-    responseHeaders.set("Allow", allowedMethods(patternOf(routerContext.manifest.routes, new URL(request.url).pathname)).join(", "));
+    responseHeaders.set("Allow", allowHeader(allowedMethods(patternOf(routerContext.manifest.routes, new URL(request.url).pathname))));
   }
   const raw = request.headers.get(CSP_NONCE_HEADER) ?? "";
   const nonce = /^[A-Za-z0-9+/=_-]{16,64}$/.test(raw) ? raw : undefined;

@@ -3,6 +3,7 @@
 import { Fragment } from "react";
 import { Form } from "react-router";
 import { lccRangeNoteOf, lccRatesText, lccShown, lccYears, missingStepsText, noStepCounted, pumpsRunningText, type CandidateEnergy as Energy } from "~/lib/projects/energy";
+import { typedFor, type TypedForm } from "~/lib/projects/typed-back";
 import { fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, type UnitChoice } from "~/lib/shared/units";
 import { LifeCycleChart } from "~/components/LifeCycleChart";
 import { cycleWarnings, stepVerdict, stepWarnings } from "~/components/cycle-notes";
@@ -94,7 +95,7 @@ export const energyRows = (currency: string, hours = ""): [string, (c: Cand) => 
   }],
 ];
 
-export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string> }) {
+export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrite, errors, typedForm }: { candidates: Cand[]; unitSystem: UnitChoice; currency: string; canWrite: boolean; errors?: Record<string, string>; typedForm?: TypedForm }) {
   if (candidates.length === 0) return null;
   const first = candidates.find((c) => c.energy)?.energy;
   return (
@@ -108,7 +109,7 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
         </p>
       ) : null}
       {candidates.map((c, i) => (
-        <CandidateCycle key={c.id} c={c} n={i + 1} unitSystem={unitSystem} currency={currency} canWrite={canWrite} error={errors?.[`price.${c.id}`]} />
+        <CandidateCycle key={c.id} c={c} n={i + 1} unitSystem={unitSystem} currency={currency} canWrite={canWrite} error={errors?.[`price.${c.id}`]} typedPrice={typedFor(typedForm, `price.${c.id}`)?.purchasePrice} />
       ))}
       <LifeCycleChart
         title="Cumulative life-cycle cost (present value) by year"
@@ -146,7 +147,8 @@ function roundedNote(cols: ReturnType<typeof cycleColumns>): string {
   return off.length ? `Rows are rounded: as printed, their ${off.join(" and their ")}; the totals are of the unrounded values.` : "";
 }
 
-export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: { c: Cand; n: number; unitSystem: UnitChoice; currency: string; canWrite?: boolean; error?: string }) {
+/** `typedPrice`: the price as posted in this form's refused post (typed-back.ts), shown in place of the stored one. */
+export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error, typedPrice }: { c: Cand; n: number; unitSystem: UnitChoice; currency: string; canWrite?: boolean; error?: string; typedPrice?: string }) {
   const e = c.energy;
   const lcc = lccShown(e);
   const cols = e?.cycle ? cycleColumns(e.cycle) : null;
@@ -284,7 +286,7 @@ export function CandidateCycle({ c, n, unitSystem, currency, canWrite, error }: 
           <input type="hidden" name="candidateId" value={c.id} />
           <label className="text-xs">
             Purchase price ({currency || "currency"}){cycleBasis(c) ? `, all ${cycleBasis(c)!.arrangement}` : ""}
-            <input name="purchasePrice" inputMode="decimal" className="field w-32 py-0.5" defaultValue={e?.purchasePrice != null ? String(e.purchasePrice) : ""} placeholder="optional" />
+            <input name="purchasePrice" inputMode="decimal" className="field w-32 py-0.5" defaultValue={typedPrice ?? (e?.purchasePrice != null ? String(e.purchasePrice) : "")} placeholder="optional" />
           </label>
           <button className="btn-quiet text-xs" name="intent" value="price">
             Set price

@@ -151,7 +151,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
           </li>
           <li>
             Calculator requests are <code>POST</code> with <code>Content-Type: application/json</code> (415
-            otherwise); any other method gets <strong>405</strong> with <code>Allow: POST</code>. They read no cookies
+            otherwise); any other method gets <strong>405</strong> with <code>Allow: POST, OPTIONS</code>. They read no cookies
             and store nothing you send.
           </li>
           <li>
@@ -176,7 +176,7 @@ export default function ApiDocs({ loaderData }: Route.ComponentProps) {
         <p className="text-sm text-slate-700">
           Some requests are refused before any route reads them, in the same shape (<code>type</code>, <code>title</code>,{" "}
           <code>status</code>, <code>detail</code>): a method the route does not take (<strong>405</strong>, with the
-          methods it does take in <code>Allow</code>; <code>OPTIONS</code> answers <strong>204</strong> with that{" "}
+          methods it does take, <code>OPTIONS</code> among them, in <code>Allow</code>; <code>OPTIONS</code> answers <strong>204</strong> with that{" "}
           <code>Allow</code>), a path no API route serves (<strong>404</strong>), a write from another site's page carrying
           your session cookie (<strong>403</strong>; token calls send no cookie) and a body over its limit (
           <strong>413</strong>).

@@ -7,6 +7,7 @@ import { ApiUploadRefused, uploadForApi } from "~/lib/libraries/api-upload.serve
 import { badRequest, methodNotAllowed, problem, refuseMethod } from "~/lib/shared/problem.server";
 import { asProblem } from "~/lib/shared/api-errors.server";
 import { IdField, readFormSafe } from "~/lib/shared/forms.server";
+import { parseStrictJson } from "~/lib/shared/strict-json";
 
 // POST /api/v1/libraries/:id/upload (multipart/form-data: file; optional mapping = JSON; optional import = "1";
 // optional policy = "skip-curves" (default) | "drop-points", which overrides the mapping's policy; optional note).
@@ -29,11 +30,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     let mapping: unknown = undefined;
     const raw = form.get("mapping");
     if (typeof raw === "string" && raw.trim()) {
-      try {
-        mapping = JSON.parse(raw);
-      } catch {
-        return badRequest("The 'mapping' field is not JSON.", { errors: [{ field: "mapping", message: "not JSON" }] });
-      }
+      // Strictly (strict-json.ts): a name twice in one object is refused with its JSON Pointer, as the JSON APIs refuse it.
+      const json = parseStrictJson(raw);
+      if (!json.ok) return badRequest(`The 'mapping' field ${json.problem}.`, { errors: [{ field: "mapping", message: json.problem }] });
+      mapping = json.value;
     }
     const policy = form.get("policy");
     if (policy !== null && policy !== "skip-curves" && policy !== "drop-points")

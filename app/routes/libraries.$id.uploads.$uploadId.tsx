@@ -9,12 +9,11 @@ import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
 import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, headerPowerKind, headerUnitRefusal, NUMERIC_FIELDS, powerKindNote, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
-import { editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
+import { baseMappingOf, editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
 import { FixGrid } from "~/components/FixGrid";
 import { MinFlowEditor } from "~/components/MinFlowEditor";
 import { readMinFlowForm } from "~/lib/libraries/min-flow-form";
-import { MappingSchema } from "~/lib/import";
 import { QueryId, readId, readFormSafe, readQuery } from "~/lib/shared/forms.server";
 import { FormError, Notice, Options } from "~/components/forms";
 import { CurvePreview } from "~/components/CurvePreview";
@@ -96,15 +95,9 @@ export async function action({ request, params }: Route.ActionArgs) {
  * was served with (`base`), written into a corrected copy of the upload, which the page then checks again.
  */
 async function saveMinFlows(c: Awaited<ReturnType<typeof context>>, form: FormData) {
-  let base: unknown;
-  try {
-    base = JSON.parse(String(form.get("base") ?? ""));
-  } catch {
-    base = null;
-  }
-  const mapping = v.safeParse(MappingSchema, base);
-  if (!mapping.success) return data({ error: "The mapping could not be read; reload the page." }, { status: 400 });
-  const s = await analysis(c, mapping.output);
+  const base = baseMappingOf(form);
+  if (!base.mapping) return data({ error: base.error }, { status: 400 });
+  const s = await analysis(c, base.mapping);
   const r = readMinFlowForm(form, s.minFlows, c.m.user.units, { headerLine: s.sniff.headerLine, width: s.headers.length, decimalComma: s.sniff.decimalComma });
   if (!r.ok && r.status === 404) throw data(r.error, { status: 404 });
   if (!r.ok) return data({ error: r.error }, { status: r.status });

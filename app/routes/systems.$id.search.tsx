@@ -157,7 +157,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const method = form.get("method");
     r = await addCandidate(viewer, id, formId(form, "curveSetId"), { ...DEFAULT_ADJUSTMENT, method: method === "trim" || method === "speed" ? method : "none" });
   }
-  if (!r.ok) return { error: r.reason };
+  if (!r.ok) return data({ error: r.reason }, { status: 409 }); // conflicts with the candidates there (RFC 9110 §15.5.10; was 200)
   throw redirect(`/systems/${id}`);
 }
 

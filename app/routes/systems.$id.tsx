@@ -12,7 +12,7 @@ import { can } from "~/lib/auth/permissions";
 import { readId, formId, readFormSafe } from "~/lib/shared/forms.server";
 import { readAdjustForm } from "~/lib/projects/adjust-form";
 import { readSystemForm, systemFormValues, type FormErrors } from "~/lib/projects/system-form";
-import { typedFields, typedOver, type TypedFields } from "~/lib/projects/typed-back";
+import { ADJUST_FIELDS, PRICE_FIELDS, typedCandidateForm, typedFields, typedOver, type TypedForm, type TypedFields } from "~/lib/projects/typed-back";
 import { FormError, Notice } from "~/components/forms";
 import { SystemFieldset } from "~/components/system-editor/SystemFieldset";
 import { DutyFieldset } from "~/components/system-editor/DutyFieldset";
@@ -85,14 +85,16 @@ export async function action({ request, params }: Route.ActionArgs) {
     case "adjust": {
       const candidateId = formId(form, "candidateId");
       const adj = readAdjustForm(form, sys);
-      if (!adj.adjustment) return { errors: { [`adj.${candidateId}`]: adj.error }, notice: null };
+      // A refused adjustment answers 400 as the save does, with the fields as posted: without JavaScript the candidate's form
+      // shows them in place of the stored adjustment (typed-back.ts typedCandidateForm).
+      if (!adj.adjustment) return data({ errors: { [`adj.${candidateId}`]: adj.error }, notice: null, typedForm: typedCandidateForm(form, `adj.${candidateId}`, ADJUST_FIELDS) }, { status: 400 });
       await adjustCandidate(viewer, candidateId, adj.adjustment);
       return { errors: {}, notice: "Candidate adjusted." };
     }
     case "price": {
       const candidateId = formId(form, "candidateId");
       const { cents, error } = readPriceCents(form.get("purchasePrice"), await workspaceCurrency(m.workspace.id));
-      if (cents === undefined) return { errors: { [`price.${candidateId}`]: error }, notice: null };
+      if (cents === undefined) return data({ errors: { [`price.${candidateId}`]: error }, notice: null, typedForm: typedCandidateForm(form, `price.${candidateId}`, PRICE_FIELDS) }, { status: 400 });
       await setCandidatePrice(viewer, candidateId, cents);
       return { errors: {}, notice: cents === null ? "Purchase price cleared." : "Purchase price set." };
     }
@@ -113,7 +115,7 @@ async function postPreview([url, input]: [string, string]): Promise<WorkbenchVie
 
 export default function SystemPage() {
   const d = useLoaderData<typeof loader>();
-  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null; saved?: boolean; typed?: TypedFields } | undefined;
+  const a = useActionData<typeof action>() as { errors?: FormErrors; notice?: string | null; saved?: boolean; typed?: TypedFields; typedForm?: TypedForm } | undefined;
   const nav = useNavigation();
   const formRef = useRef<HTMLFormElement>(null);
   const [draft, setDraft] = useState<string | null>(null);
@@ -128,7 +130,8 @@ export default function SystemPage() {
     setDraft(null);
     setTyped(false);
   }, [d]);
-  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
+  // Served as the answer to a refused save (without JavaScript): the typed values shown are not stored, so unsaved at once.
+  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null, Boolean(a?.typed));
   const onInput = () => {
     unsaved.check();
     if (timer.current) clearTimeout(timer.current);
@@ -148,7 +151,7 @@ export default function SystemPage() {
   const storedErrors = d.review && !typed && !Object.keys(a?.errors ?? {}).length ? d.review.fields : {};
   const errors = { ...storedErrors, ...(a?.errors ?? {}), ...liveErrors };
   // After a refused save, every field as typed in that post (the stored values otherwise).
-  const f = typedOver(systemFormValues(d.input, d.unitSystem), a?.typed);
+  const f = typedOver(systemFormValues(d.input, d.unitSystem), a?.typed, d.unitSystem);
   const ro = !d.canWrite;
   return (
     <div className="space-y-4">
@@ -209,12 +212,12 @@ export default function SystemPage() {
                     duty={viewInput.duty}
                     tolerance={viewInput.flowTolerance}
                     currency={d.currency}
-                    actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} />}
+                    actions={(c) => <CandidateActions c={c} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} canSelect={d.canSelect} typedForm={a?.typedForm} />}
                   />
                 )}
-                <CandidatesNeedingReview items={view.needsReview} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} />
+                <CandidatesNeedingReview items={view.needsReview} unitSystem={d.unitSystem} errors={errors} canWrite={d.canWrite} typedForm={a?.typedForm} />
               </section>
-              <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} />
+              <CandidateEnergyPanel candidates={view.candidates} unitSystem={d.unitSystem} currency={d.currency} canWrite={d.canWrite} errors={errors} typedForm={a?.typedForm} />
             </>
           ) : null}
           {d.canWrite ? (

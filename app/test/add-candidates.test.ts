@@ -114,7 +114,7 @@ describe("adding several ticked pumps at once", () => {
   test("more candidates than a system keeps (6): refused with a message, nothing written", async () => {
     expect((await post([`${own[0]}:direct`, `${own[1]}:direct`])).status).toBe(302);
     const r = await post(own.slice(2, 7).map((id) => `${id}:direct`)); // 2 + 5 = 7 > 6
-    expect(r.status).toBe(200);
+    expect(r.status).toBe(409); // RFC 9110 §15.5.10: refused by the system's current state (was 200: helper "formedges")
     expect((r.body as { error: string }).error).toMatch(/At most 6 candidates/);
     expect((await rows()).length).toBe(2);
     expect((await post(own.slice(2, 6).map((id) => `${id}:direct`))).status).toBe(302); // 2 + 4 = 6 is fine
@@ -157,7 +157,7 @@ describe("adding several ticked pumps at once", () => {
     expect(r.status).toBe(302);
     expect(await rows()).toEqual([{ curveSetId: own[4], method: "trim" }]);
     const again = await post([], [["one", `${own[4]}:trim`]]);
-    expect(again.status).toBe(200);
+    expect(again.status).toBe(409); // RFC 9110 §15.5.10: a conflict with the candidates the system has (was 200)
     expect((again.body as { error: string }).error).toMatch(/already a candidate/);
     for (const bad of ["", "abc", `${own[5]}:magic`, `${own[5]}`, "-1:direct", `${foreign[0]}:direct:x`]) {
       expect((await post([], [["one", bad]])).status, bad).toBe(400);

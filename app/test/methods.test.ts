@@ -54,18 +54,18 @@ test("the method a resource route does not take: 405 problem+json naming the one
       const r = await call(fn as never, { path: "/x", method, cookie, params: { id: "1", photoId: "1", pictureId: "1" }, headers: { origin: "http://127.0.0.1:3999" } });
       expect(r.status, file).toBe(405);
       expect(r.headers.get("content-type"), file).toBe("application/problem+json");
-      expect(r.headers.get("allow"), file).toBe(allow);
+      expect(r.headers.get("allow"), file).toBe(`${allow}, OPTIONS`); // RFC 9110 §10.2.1: and OPTIONS, answered on every route
     }
   }
 });
 
-test("PUT, PATCH and DELETE on the API's POST actions: 405 problem+json with Allow: POST, nothing run (DELETE /api/v1/libraries/:id/upload used to store an upload)", async () => {
+test("PUT, PATCH and DELETE on the API's POST actions: 405 problem+json with Allow: POST, OPTIONS, nothing run (DELETE /api/v1/libraries/:id/upload used to store an upload)", async () => {
   for (const file of ["api.v1.libraries.$id.upload.ts", "api.v1.systems.$id.preview.ts"]) {
     const mod = modules[`../routes/${file}`];
     for (const method of ["PUT", "PATCH", "DELETE"]) {
       const r = await call(mod.action as never, { path: "/x", method, params: { id: "1" }, headers: { origin: "http://127.0.0.1:3999", authorization: "Bearer nobody" } });
       expect(r.status, `${method} ${file}`).toBe(405);
-      expect(r.headers.get("allow"), `${method} ${file}`).toBe("POST");
+      expect(r.headers.get("allow"), `${method} ${file}`).toBe("POST, OPTIONS"); // RFC 9110 §10.2.1: OPTIONS is answered too
     }
   }
 });
@@ -97,7 +97,7 @@ test("a POST to a page without an action: 405 with Allow: GET, HEAD from the roo
     const chain = (middleware as unknown as Mw[]).reduceRight<() => Promise<Response>>((n, mw) => async () => (await mw({ request, params: {}, pattern: page.path, context: {} }, n)) as Response, next);
     const res = await chain();
     // RFC 9110 §15.5.6: 405 with the methods the resource takes in Allow.
-    expect([page.path, res.status, res.headers.get("allow"), reached]).toEqual([page.path, 405, "GET, HEAD", false]);
+    expect([page.path, res.status, res.headers.get("allow"), reached]).toEqual([page.path, 405, "GET, HEAD, OPTIONS", false]); // §10.2.1: and OPTIONS
   }
   expect(logged).not.toHaveBeenCalled();
 });
@@ -132,7 +132,7 @@ test("every API route says once what it takes: its refusing loader or action is 
     expect([r.path, refusing.length], r.path).toEqual([r.path, 1]);
     const [method, fn] = refusing[0];
     const answer = await call(fn as never, { path: `/${r.path}`, method, params: { id: "1" }, headers: { origin: "http://127.0.0.1:3999" } });
-    expect([r.path, answer.status, answer.headers.get("allow")]).toEqual([r.path, 405, fn.allow]);
+    expect([r.path, answer.status, answer.headers.get("allow")]).toEqual([r.path, 405, `${fn.allow}, OPTIONS`]); // the OPTIONS answer's Allow
     found.push(`${r.path}: ${fn.allow}`);
   }
   // The API's GET routes and POST routes (app/routes.ts; the /api page documents each).

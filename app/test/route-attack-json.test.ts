@@ -203,6 +203,26 @@ test("the upload API's mapping field as JSON of odd shapes (deep, a BOM, past a 
   expect(fails).toEqual([]);
 }, 120_000);
 
+test("the upload API's mapping with a name twice in one object, valid once JSON.parse kept the last: 400 problem+json naming the name and the object's JSON Pointer (was 201)", async () => {
+  // source: RFC 8259 §4 (names SHOULD be unique), RFC 7493 §2.3 (I-JSON: MUST NOT), RFC 6901 (JSON Pointer), RFC 9457
+  const r = ROUTES.find((x) => x.path === "api/v1/libraries/:id/upload")!;
+  const csv = readFileSync("fixtures/csv/long-si.csv", "utf8");
+  const upload = (mapping: string) => post(r, multipart([["file", csv, "m.csv"], ["mapping", mapping]]), { "content-type": "multipart/form-data; boundary=QQ" });
+  const first = await upload("");
+  expect(first.status).toBe(201);
+  const used = JSON.stringify((JSON.parse(first.text) as { report: { mapping: unknown } }).report.mapping);
+  expect((await upload(used)).status).toBe(201); // the mapping used, given once: taken
+  const inColumn = used.replace('{"index":1,', '{"index":2,"index":1,');
+  expect(inColumn).not.toBe(used);
+  for (const [text, at] of [['{"layout":"wide",' + used.slice(1), "its top object"], [inColumn, "the object at /columns/1"]]) {
+    const a = await upload(text);
+    expect([a.status, a.type]).toEqual([400, "application/problem+json"]);
+    const body = JSON.parse(a.text) as { detail: string; errors: { field: string; message: string }[] };
+    expect(body.detail).toContain(`twice in ${at}`);
+    expect(body.errors[0].field).toBe("mapping");
+  }
+}, 60_000);
+
 /** Every form field name a route module reads (as route-attack-bodies.test.ts finds them). */
 function fieldsOf(file: string): string[] {
   const src = readFileSync(`app/${file}`, "utf8");
@@ -235,7 +255,9 @@ test("form actions: JSON of odd shapes (a BOM, 10 000 deep) refused with a 4xx; 
     ];
     // a form field that carries JSON (the mapping page's `base`, the upload API's `mapping`), with each intent the module names
     const intents = [...new Set([...src.matchAll(/intent"\) === "([\w-]+)"|intent === "([\w-]+)"|case "([\w-]+)"/g)].map((m) => m[1] ?? m[2] ?? m[3]))];
-    for (const f of fields.filter((x) => /JSON\.parse\(String\(form\.get\("/.test(src) && ["base", "mapping"].includes(x))) {
+    // (the mapping page reads its `base` through mapping-form.ts baseMappingOf, not in the route module itself)
+    const jsonFields = new Set([...fields.filter((x) => /JSON\.parse\(String\(form\.get\("/.test(src) && ["base", "mapping"].includes(x)), ...(/baseMappingOf\(form\)|mappingFromForm\(form\)/.test(src) ? ["base"] : [])]);
+    for (const f of jsonFields) {
       for (const intent of ["check", ...intents]) {
         for (const raw of [deepObject, deepArray, "\uFEFF{}", '{"columns":[{"index":1e309}]}']) {
           asks.push({ name: `${f} = ${raw.slice(0, 12)}…, intent ${intent}`, body: new URLSearchParams({ intent, [f]: raw, pageWorkspaceId: ws }), headers: { "content-type": "application/x-www-form-urlencoded" }, refuse: false });

@@ -207,9 +207,9 @@ describe.skipIf(!built)("methods no form sends, and the dev mailbox (helper \"me
   test("PUT, PATCH and DELETE on pages: 405 with Allow and no action run (the session survives DELETE /signout, the library survives intent=delete)", async () => {
     const send = (method: string, p: string) =>
       fetch(`${base}${p}`, { method, redirect: "manual", headers: { cookie, origin: base, "content-type": "application/x-www-form-urlencoded" }, body: "intent=delete&email=a%40b.test&password=x" });
-    for (const [method, p, allow] of [["DELETE", "/signout", "GET, HEAD, POST"], ["PUT", `/libraries/${libraryId}`, "GET, HEAD, POST"], ["PATCH", "/signin", "GET, HEAD, POST"], ["DELETE", "/", "GET, HEAD"]]) {
+    for (const [method, p, allow] of [["DELETE", "/signout", "GET, HEAD, POST, OPTIONS"], ["PUT", `/libraries/${libraryId}`, "GET, HEAD, POST, OPTIONS"], ["PATCH", "/signin", "GET, HEAD, POST, OPTIONS"], ["DELETE", "/", "GET, HEAD, OPTIONS"]]) {
       const r = await send(method, p);
-      // RFC 9110 §15.5.6: 405 names the methods the resource takes in Allow.
+      // RFC 9110 §15.5.6: 405 names the methods the resource takes in Allow (§10.2.1), OPTIONS among them (answered 204).
       expect([method, p, r.status, r.headers.get("allow")]).toEqual([method, p, 405, allow]);
     }
     expect((await fetch(`${base}/account`, { headers: { cookie }, redirect: "manual" })).status).toBe(200);
@@ -219,7 +219,7 @@ describe.skipIf(!built)("methods no form sends, and the dev mailbox (helper \"me
 
   test("a POST to a page without an action and PROPFIND on a page: 405 with Allow; OPTIONS: 204 with Allow and OPTIONS (was 405); no stack in the server's log", async () => {
     const from = app!.stderr().length;
-    const cases: [string, string, number, string][] = [["POST", "/field", 405, "GET, HEAD"], ["POST", "/", 405, "GET, HEAD"], ["OPTIONS", "/signin", 204, "GET, HEAD, POST, OPTIONS"], ["OPTIONS", "/field", 204, "GET, HEAD, OPTIONS"], ["PROPFIND", "/", 405, "GET, HEAD"], ["PUT", "/field", 405, "GET, HEAD"]];
+    const cases: [string, string, number, string][] = [["POST", "/field", 405, "GET, HEAD, OPTIONS"], ["POST", "/", 405, "GET, HEAD, OPTIONS"], ["OPTIONS", "/signin", 204, "GET, HEAD, POST, OPTIONS"], ["OPTIONS", "/field", 204, "GET, HEAD, OPTIONS"], ["PROPFIND", "/", 405, "GET, HEAD, OPTIONS"], ["PUT", "/field", 405, "GET, HEAD, OPTIONS"]];
     for (const [method, p, status, allow] of cases) {
       const r = await fetch(`${base}${p}`, { method, headers: { origin: base, "content-type": "application/x-www-form-urlencoded" }, body: method === "OPTIONS" || method === "PROPFIND" ? undefined : "x=1" });
       expect([method, p, r.status, r.headers.get("allow")]).toEqual([method, p, status, allow]);

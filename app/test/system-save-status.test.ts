@@ -7,7 +7,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { systems } from "@db/schema";
+import { candidates, systems } from "@db/schema";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import * as systemPage from "~/routes/systems.$id";
 import { call, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
@@ -36,6 +36,30 @@ test("a field the save refuses (a negative duty flow, a duty head of letters): 4
     expect((r.body as { saved?: boolean }).saved).toBeUndefined();
   }
   expect(await stored()).toBe(before);
+});
+
+// The candidate forms of the same page (helper "formedges"): a refused adjustment or purchase price answered 200 until then.
+const adjustForm = (over: Record<string, string>) => ({ intent: "adjust", candidateId: String(owner.candidate), method: "speed", ratio: "", arrangement: "single", dutyPumps: "1", standbyPumps: "0", motorRating: "", serviceFactor: "1", ieClass: "IE3", ...over });
+const storedCandidate = async () => (await db().select().from(candidates).where(eq(candidates.id, owner.candidate)))[0];
+
+test("a refused adjustment (a ratio of letters, 0 duty pumps) or purchase price (letters, below 0): 400 with the form's error and its fields as typed, nothing saved", async () => {
+  const before = await storedCandidate();
+  for (const over of [{ ratio: "abc" }, { dutyPumps: "0" }] as Record<string, string>[]) {
+    const r = await post(adjustForm(over));
+    const body = r.body as { errors?: Record<string, string>; typedForm?: { key: string; fields: Record<string, string> } };
+    expect([r.status, typeof body.errors?.[`adj.${owner.candidate}`]]).toEqual([400, "string"]);
+    expect(body.typedForm).toEqual({ key: `adj.${owner.candidate}`, fields: expect.objectContaining(over) });
+  }
+  for (const price of ["abc", "-5"]) {
+    const r = await post({ intent: "price", candidateId: String(owner.candidate), purchasePrice: price });
+    const body = r.body as { errors?: Record<string, string>; typedForm?: { key: string; fields: Record<string, string> } };
+    expect([price, r.status, typeof body.errors?.[`price.${owner.candidate}`]]).toEqual([price, 400, "string"]);
+    expect(body.typedForm).toEqual({ key: `price.${owner.candidate}`, fields: { purchasePrice: price } });
+  }
+  expect(await storedCandidate()).toEqual(before);
+  // The same forms with good values: 200 (a price of 1234.5 in the workspace's currency; a speed ratio of 95 %).
+  expect((await post({ intent: "price", candidateId: String(owner.candidate), purchasePrice: "1234.5" })).status).toBe(200);
+  expect((await post(adjustForm({ ratio: "95" }))).status).toBe(200);
 });
 
 const built = existsSync(path.join(ROOT, "build/server/index.js"));
@@ -81,5 +105,30 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     const again = plainHtml(await (await fetch(`${app!.base}/systems/${owner.system}`, { headers: { cookie: owner.m.cookie } })).text());
     expect(again).toMatch(new RegExp(`<input id="f-dutyFlow"[^>]*value="${good.dutyFlow}"`));
     expect(again).not.toMatch(/<input id="f-run\.1\.length"[^>]*value="75"/);
+  }, 60_000);
+
+  test("a refused save that also pressed \"+ suction run\" (no JavaScript): 400, the added run shown after the posted ones, a fitting count typed kept", async () => {
+    const good = editorPost(defaultSystemInput(), "Save status");
+    const form = { ...good, dutyFlow: "-5", addRun: "suction", "run.1.fit.tee-run": "3" };
+    const res = await postAsBrowser(form);
+    const html = plainHtml(await res.text());
+    expect(res.status).toBe(400);
+    expect(good.runCount).toBe("2"); // the default system's runs: the added run is the third (run.2)
+    expect(html).toMatch(/<input type="hidden" name="runCount" value="3"/);
+    expect(html).toMatch(/<input id="f-run\.2\.name"[^>]*value="Suction run"/); // readSystemForm's name for it
+    expect(html).toMatch(/<input id="f-run\.1\.fit\.tee-run"[^>]*value="3"/);
+  }, 60_000);
+
+  test("a refused adjustment or price posted without JavaScript: 400, the page with the error beside that form and its fields as typed", async () => {
+    const adj = await postAsBrowser(adjustForm({ ratio: "9x9", serviceFactor: "1.15" }));
+    const adjHtml = plainHtml(await adj.text());
+    expect(adj.status).toBe(400);
+    expect(adjHtml).toMatch(/<input[^>]*name="ratio" value="9x9"/);
+    expect(adjHtml).toMatch(/<input[^>]*name="serviceFactor" value="1.15"/);
+    expect(adjHtml).toContain(`<p class="text-fail">`);
+    const price = await postAsBrowser({ intent: "price", candidateId: String(owner.candidate), purchasePrice: "12x" });
+    const priceHtml = plainHtml(await price.text());
+    expect(price.status).toBe(400);
+    expect(priceHtml).toMatch(/<input[^>]*name="purchasePrice"[^>]*value="12x"/);
   }, 60_000);
 });

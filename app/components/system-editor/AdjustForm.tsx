@@ -5,19 +5,24 @@ import { IE_CLASSES } from "~/engine";
 import { labelOf, toChosen, type UnitChoice } from "~/lib/shared/units";
 import type { Adjustment } from "~/lib/projects/candidate-input";
 import { MAX_DUTY_PUMPS, MAX_STANDBY_PUMPS } from "~/lib/projects/candidate-input";
+import type { TypedFields } from "~/lib/projects/typed-back";
 
 /** A number as the form shows it: one stored missing or not a number (NaN, a candidate needing review) is blank. */
 const shown = (x: number) => (Number.isFinite(x) ? String(x) : "");
 
-/** `c.adjustment`: the candidate's, or for one needing review the stored values as far as they read (`adjustFormValues`). */
-export function AdjustForm({ c, unitSystem, error }: { c: { id: number; adjustment: Adjustment }; unitSystem: UnitChoice; error?: string }) {
+/**
+ * `c.adjustment`: the candidate's, or for one needing review the stored values as far as they read (`adjustFormValues`).
+ * `typed`: the fields as posted in this form's refused post (typed-back.ts typedFor), shown over the stored ones.
+ */
+export function AdjustForm({ c, unitSystem, error, typed }: { c: { id: number; adjustment: Adjustment }; unitSystem: UnitChoice; error?: string; typed?: TypedFields }) {
   const a = c.adjustment;
+  const t = typed ?? {};
   return (
     <Form method="post" className="space-y-1 text-xs">
       <input type="hidden" name="candidateId" value={c.id} />
       <label className="block">
         Adjust by
-        <select name="method" defaultValue={a.method} className="field py-0.5 text-xs">
+        <select name="method" defaultValue={t.method ?? a.method} className="field py-0.5 text-xs">
           <option value="none">nothing (as published)</option>
           <option value="speed">speed (VFD)</option>
           <option value="trim">impeller trim</option>
@@ -25,11 +30,11 @@ export function AdjustForm({ c, unitSystem, error }: { c: { id: number; adjustme
       </label>
       <label className="block">
         Ratio % (blank: solve for the duty)
-        <input name="ratio" inputMode="decimal" defaultValue={a.ratio != null ? shown(+(a.ratio * 100).toFixed(2)) : ""} className="field py-0.5 text-xs" />
+        <input name="ratio" inputMode="decimal" defaultValue={t.ratio ?? (a.ratio != null ? shown(+(a.ratio * 100).toFixed(2)) : "")} className="field py-0.5 text-xs" />
       </label>
       <label className="block">
         Pumps
-        <select name="arrangement" defaultValue={a.arrangement} className="field py-0.5 text-xs">
+        <select name="arrangement" defaultValue={t.arrangement ?? a.arrangement} className="field py-0.5 text-xs">
           <option value="single">one pump</option>
           <option value="parallel">in parallel</option>
           <option value="series">in series</option>
@@ -38,25 +43,25 @@ export function AdjustForm({ c, unitSystem, error }: { c: { id: number; adjustme
       <div className="flex gap-1">
         <label className="block">
           duty
-          <input name="dutyPumps" type="number" min={1} max={MAX_DUTY_PUMPS} defaultValue={shown(a.dutyPumps)} className="field w-14 py-0.5 text-xs" />
+          <input name="dutyPumps" type="number" min={1} max={MAX_DUTY_PUMPS} defaultValue={t.dutyPumps ?? shown(a.dutyPumps)} className="field w-14 py-0.5 text-xs" />
         </label>
         <label className="block">
           standby
-          <input name="standbyPumps" type="number" min={0} max={MAX_STANDBY_PUMPS} defaultValue={shown(a.standbyPumps)} className="field w-14 py-0.5 text-xs" />
+          <input name="standbyPumps" type="number" min={0} max={MAX_STANDBY_PUMPS} defaultValue={t.standbyPumps ?? shown(a.standbyPumps)} className="field w-14 py-0.5 text-xs" />
         </label>
       </div>
       <div className="flex gap-1">
         <label className="block">
           motor {labelOf(unitSystem, "power")} (blank: suggested)
-          <input name="motorRating" inputMode="decimal" defaultValue={a.motorRating > 0 ? shown(+toChosen(unitSystem, "power", a.motorRating).toFixed(2)) : ""} className="field w-16 py-0.5 text-xs" />
+          <input name="motorRating" inputMode="decimal" defaultValue={t.motorRating ?? (a.motorRating > 0 ? shown(+toChosen(unitSystem, "power", a.motorRating).toFixed(2)) : "")} className="field w-16 py-0.5 text-xs" />
         </label>
         <label className="block">
           service factor
-          <input name="serviceFactor" inputMode="decimal" defaultValue={shown(a.serviceFactor)} className="field w-14 py-0.5 text-xs" />
+          <input name="serviceFactor" inputMode="decimal" defaultValue={t.serviceFactor ?? shown(a.serviceFactor)} className="field w-14 py-0.5 text-xs" />
         </label>
         <label className="block">
           class
-          <select name="ieClass" defaultValue={a.ieClass ?? "IE3"} className="field py-0.5 text-xs">
+          <select name="ieClass" defaultValue={t.ieClass ?? a.ieClass ?? "IE3"} className="field py-0.5 text-xs">
             {IE_CLASSES.map((k) => (
               <option key={k} value={k}>
                 {k}

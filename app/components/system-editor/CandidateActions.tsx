@@ -5,13 +5,14 @@ import type { FormErrors } from "~/lib/projects/system-form";
 import type { UnitChoice } from "~/lib/shared/units";
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
+import { typedFor, type TypedForm } from "~/lib/projects/typed-back";
 import { PostButton } from "~/components/PostButton";
 
-export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean; canSelect: boolean }) {
+export function CandidateActions({ c, unitSystem, errors, canWrite, canSelect, typedForm }: { c: WorkbenchView["candidates"][number]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean; canSelect: boolean; typedForm?: TypedForm }) {
   if (!canWrite && !canSelect) return null;
   return (
     <div className="space-y-2">
-      {canWrite ? <AdjustForm c={c} unitSystem={unitSystem} error={errors[`adj.${c.id}`]} /> : null}
+      {canWrite ? <AdjustForm c={c} unitSystem={unitSystem} error={errors[`adj.${c.id}`]} typed={typedFor(typedForm, `adj.${c.id}`)} /> : null}
       {canSelect && c.result?.operating ? (
         <Form method="post" className="space-y-1">
           <input type="hidden" name="candidateId" value={c.id} />

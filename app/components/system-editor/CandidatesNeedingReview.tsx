@@ -6,10 +6,11 @@ import type { FormErrors } from "~/lib/projects/system-form";
 import type { UnitChoice } from "~/lib/shared/units";
 import type { CandidateReviewView } from "~/lib/projects/workbench-view";
 import { AdjustForm } from "./AdjustForm";
+import { typedFor, type TypedForm } from "~/lib/projects/typed-back";
 import { PostButton } from "~/components/PostButton";
 import { StoredProblems } from "~/components/StoredProblems";
 
-export function CandidatesNeedingReview({ items, unitSystem, errors, canWrite }: { items: readonly CandidateReviewView[]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean }) {
+export function CandidatesNeedingReview({ items, unitSystem, errors, canWrite, typedForm }: { items: readonly CandidateReviewView[]; unitSystem: UnitChoice; errors: FormErrors; canWrite: boolean; typedForm?: TypedForm }) {
   if (items.length === 0) return null;
   const n = items.length;
   return (
@@ -34,7 +35,7 @@ export function CandidatesNeedingReview({ items, unitSystem, errors, canWrite }:
           {canWrite ? (
             <div className="flex flex-wrap items-end gap-3">
               <div className="w-64">
-                <AdjustForm c={{ id: c.id, adjustment: c.form }} unitSystem={unitSystem} error={errors[`adj.${c.id}`]} />
+                <AdjustForm c={{ id: c.id, adjustment: c.form }} unitSystem={unitSystem} error={errors[`adj.${c.id}`]} typed={typedFor(typedForm, `adj.${c.id}`)} />
               </div>
               <PostButton intent="remove-candidate" field="candidateId" id={c.id} className="text-xs text-slate-600 underline">
                 remove

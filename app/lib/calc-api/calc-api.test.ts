@@ -244,11 +244,11 @@ describe("roughness refused from half the bore, as the system editor and engine 
 });
 
 describe("methods", () => {
-  test.each(Object.keys(ROUTES) as Endpoint[])("GET and PUT on %s → 405 problem+json with Allow: POST", async (ep) => {
+  test.each(Object.keys(ROUTES) as Endpoint[])("GET and PUT on %s → 405 problem+json with Allow: POST, OPTIONS", async (ep) => {
     for (const method of ["GET", "PUT", "DELETE"]) {
       const r = await post(ep, {}, { method });
       expectProblem(r, 405); // RFC 9110 §15.5.6
-      expect(r.headers.get("allow")).toBe("POST");
+      expect(r.headers.get("allow")).toBe("POST, OPTIONS"); // RFC 9110 §10.2.1: OPTIONS is answered on every route
     }
   });
 });

@@ -19,7 +19,7 @@ describe("mappingFromForm", () => {
   it("refuses a base that is not JSON or not a mapping, with a message", () => {
     const f = form({});
     f.set("base", "{not json");
-    expect(mappingFromForm(f)).toEqual({ error: "The mapping could not be read; reload the page." });
+    expect(mappingFromForm(f).error).toMatch(/^The mapping could not be read \(the page.s base mapping is not valid JSON .*\); reload the page\.$/);
     f.set("base", JSON.stringify({ version: 2 }));
     expect(mappingFromForm(f).error).toMatch(/could not be read/);
   });
@@ -76,6 +76,24 @@ describe("a column whose header names a unit its field does not take (Head (kPa)
     expect(m.columns[3]).toMatchObject({ unit: "m", unitSource: "user" }); // source: mapping-form rule (picked from “choose…”)
     expect(errorsOf(m)).toEqual(["Speed (Hz)"]); // source: importer rule
     expect(unitToChoose(m.columns[3])).toBe(false); // source: the select shows the user's unit from now on
+  });
+});
+
+describe("the page's base mapping (helper \"formedges\")", () => {
+  const served = suggestMapping(["Model", "Q [m3/h]", "Head [m]"], [], false);
+  const text = JSON.stringify(served);
+  it("a name twice in one object is refused with the name and the object's JSON Pointer, where JSON.parse kept the last", () => {
+    // source: RFC 8259 §4 (names SHOULD be unique), RFC 7493 §2.3 (I-JSON: MUST NOT), RFC 6901 (JSON Pointer); strict-json.ts
+    const top = '{"layout":"wide",' + text.slice(1); // JSON.parse: the served layout, a valid mapping
+    const inColumn = text.replace('{"index":1,', '{"index":2,"index":1,'); // the second column's index given twice
+    expect(inColumn).not.toBe(text);
+    for (const [base, at] of [[top, /top object/], [inColumn, /"\/columns\/1"|\/columns\/1 /]] as const) {
+      const r = mappingFromForm(formOf({ base }));
+      expect(r.mapping).toBeUndefined();
+      expect(r.error).toMatch(/twice/);
+      expect(r.error).toMatch(at);
+    }
+    expect(mappingFromForm(formOf({ base: text })).mapping?.columns).toHaveLength(3); // the same mapping once: read
   });
 });
 

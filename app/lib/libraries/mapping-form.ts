@@ -3,6 +3,7 @@
 // fix grid's edited cells. Anything unreadable is an error message, never an exception.
 import * as v from "valibot";
 import { decimalField } from "../shared/decimal";
+import { parseStrictJson } from "../shared/strict-json";
 import { DIAMETER_UNITS, encodingNamed, headerUnitRefusal, MappingSchema, NUMERIC_FIELDS, UNITS_BY_FIELD, type CellEdit, type Encoding, type Mapping, type NumericField } from "../import";
 
 /** The unit of the default impeller field: the reader's diameter unit where the importer knows it, else mm. */
@@ -22,17 +23,22 @@ export function unitToChoose(c: Pick<Mapping["columns"][number], "header" | "fie
   return c.unitSource !== "user" && headerUnitRefusal(c.header, c.field) !== null;
 }
 
+/**
+ * The mapping the page was served with (its hidden `base` field), read strictly: a name twice in one object is refused
+ * (parseStrictJson, with its JSON Pointer) as every other JSON we read, where JSON.parse kept the last silently.
+ */
+export function baseMappingOf(form: FormData): { mapping: Mapping; error?: undefined } | { mapping?: undefined; error: string } {
+  const json = parseStrictJson(String(form.get("base") ?? ""));
+  if (!json.ok) return { error: `The mapping could not be read (the page's base mapping ${json.problem}); reload the page.` };
+  const parsed = v.safeParse(MappingSchema, json.value);
+  return parsed.success ? { mapping: parsed.output } : { error: "The mapping could not be read; reload the page." };
+}
+
 /** Rebuilds a mapping from the form: the base mapping (JSON) with the user's field/unit choices. */
 export function mappingFromForm(form: FormData): { mapping?: Mapping; error?: string } {
-  let base: unknown;
-  try {
-    base = JSON.parse(String(form.get("base") ?? ""));
-  } catch {
-    return { error: "The mapping could not be read; reload the page." };
-  }
-  const parsed = v.safeParse(MappingSchema, base);
-  if (!parsed.success) return { error: "The mapping could not be read; reload the page." };
-  const m: Mapping = structuredClone(parsed.output);
+  const base = baseMappingOf(form);
+  if (!base.mapping) return { error: base.error };
+  const m: Mapping = structuredClone(base.mapping);
   const layout = form.get("layout");
   if (layout === "long" || layout === "wide") m.layout = layout;
   m.columns = m.columns.map((c) => {

@@ -24,13 +24,13 @@ describe("typedFields", () => {
 describe("typedOver", () => {
   test("nothing posted (a page load, a save that went through): the stored values, no run ticked for removal", () => {
     const f = stored();
-    const shown = typedOver(f, undefined);
+    const shown = typedOver(f, undefined, SI_UNITS);
     expect([shown.dutyFlow, shown.runs, shown.removeRun]).toEqual([f.dutyFlow, f.runs, [false, false]]);
   });
 
   test("a refused post: the bad value and the good edits as typed, fields not posted as stored", () => {
     const f = stored();
-    const shown = typedOver(f, { dutyFlow: "-5", tolPlus: "12", runCount: "2", "run.1.length": "75", "run.1.fit.exit": "abc", "run.0.remove": "on", "run.0.side": "discharge" });
+    const shown = typedOver(f, { dutyFlow: "-5", tolPlus: "12", runCount: "2", "run.1.length": "75", "run.1.fit.exit": "abc", "run.0.remove": "on", "run.0.side": "discharge" }, SI_UNITS);
     expect(f.dutyFlow).not.toBe("-5");
     expect([shown.dutyFlow, shown.tolPlus, shown.dutyHead]).toEqual(["-5", "12", f.dutyHead]);
     expect([shown.runs[1].length, shown.runs[1].fittings.exit, shown.runs[1].fittings["swing-check"], shown.runs[0].length]).toEqual(["75", "abc", 1, f.runs[0].length]);
@@ -39,9 +39,18 @@ describe("typedOver", () => {
 
   test("the run count as posted: fewer runs than stored shows fewer, more shows the extra run from its posted fields", () => {
     const f = stored();
-    expect(typedOver(f, { runCount: "1" }).runs.map((r) => r.name)).toEqual([f.runs[0].name]);
-    const three = typedOver(f, { runCount: "3", "run.2.side": "suction", "run.2.name": "New run", "run.2.length": "4" });
+    expect(typedOver(f, { runCount: "1" }, SI_UNITS).runs.map((r) => r.name)).toEqual([f.runs[0].name]);
+    const three = typedOver(f, { runCount: "3", "run.2.side": "suction", "run.2.name": "New run", "run.2.length": "4" }, SI_UNITS);
     expect(three.runs.map((r) => [r.side, r.name, r.length])).toEqual([...f.runs.map((r) => [r.side, r.name, r.length]), ["suction", "New run", "4"]]);
-    expect(typedOver(f, { runCount: "0x10" }).runs).toHaveLength(f.runs.length); // a run count that is not one: the stored runs
+    expect(typedOver(f, { runCount: "0x10" }, SI_UNITS).runs).toHaveLength(f.runs.length); // a run count that is not one: the stored runs
+  });
+
+  test("a refused post that also pressed \"+ suction run\" (addRun): the run it added is shown after the posted ones, as a new run of that side", async () => {
+    const f = stored();
+    const shown = typedOver(f, { runCount: "2", addRun: "suction", dutyFlow: "-5" }, SI_UNITS);
+    expect(shown.runs.map((r) => [r.side, r.name])).toEqual([...f.runs.map((r) => [r.side, r.name]), ["suction", "Suction run"]]); // readSystemForm's newRun names
+    expect(shown.removeRun).toEqual([false, false, false]);
+    expect(typedFields(form({ addRun: "discharge" }))).toEqual({ addRun: "discharge" });
+    expect(typedOver(f, { runCount: "2", addRun: "sideways" }, SI_UNITS).runs).toHaveLength(2); // not one of the buttons: nothing added
   });
 });

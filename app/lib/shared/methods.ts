@@ -117,11 +117,18 @@ export const ROUTER_METHODS: ReadonlySet<string> = new Set(["GET", "HEAD", "POST
 export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string } | { status: 204; allow: string };
 
 /**
- * The Allow of an answer to OPTIONS: the methods the route takes, and OPTIONS, which it has just taken. One rule on every
- * route, page or API (DEVELOPERS.md, decision "wirereq"): 204 with this Allow, nothing else (no CORS: no
- * Access-Control-* header, so a browser's preflight from another origin still fails).
+ * The Allow header of every answer that carries one: the methods the route takes, and OPTIONS, which every route answers
+ * (204, `unknownMethodAnswer`). RFC 9110 §10.2.1: Allow lists the methods the target resource supports, so a 405's Allow
+ * and the OPTIONS answer's are the same list (helper "formedges"; the 405s left OPTIONS out until then). Each method once.
  */
-export const optionsAllow = (allow: readonly string[] | string) => [...(typeof allow === "string" ? allow.split(", ") : allow), "OPTIONS"].join(", ");
+export const allowHeader = (allow: readonly string[] | string) => [...new Set([...(typeof allow === "string" ? allow.split(", ") : allow), "OPTIONS"])].join(", ");
+
+/**
+ * The Allow of an answer to OPTIONS (`allowHeader`). One rule on every route, page or API (DEVELOPERS.md, decision
+ * "wirereq"): 204 with this Allow, nothing else (no CORS: no Access-Control-* header, so a browser's preflight from
+ * another origin still fails).
+ */
+export const optionsAllow = allowHeader;
 
 /**
  * The answer to a method React Router does not take (null for one it does), and to OPTIONS on every route (204, Allow by

@@ -1,4 +1,5 @@
 // RFC 9457 problem details for API routes.
+import { allowHeader } from "./methods";
 export type Problem = { type?: string; title: string; status: number; detail?: string; [k: string]: unknown };
 
 /** The document itself (`type` "about:blank" unless given): every problem of the API, and app/serve.mjs's own (refusal.server.ts). */
@@ -24,7 +25,7 @@ export const badRequest = (detail: string, extra?: Record<string, unknown>) =>
  */
 export const methodNotAllowed = (allow: string | readonly string[], detail?: string) => {
   const list = typeof allow === "string" ? allow : allow.join(", ");
-  return problem({ title: "Method Not Allowed", status: 405, detail: detail ?? `Use ${list} here.` }, { Allow: list });
+  return problem({ title: "Method Not Allowed", status: 405, detail: detail ?? `Use ${list} here.` }, { Allow: allowHeader(list) }); // and OPTIONS (methods.ts)
 };
 
 /** An API route's loader or action that takes no method: 405 with Allow, the methods the route takes kept on it as `allow`. */

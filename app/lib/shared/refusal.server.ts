@@ -5,6 +5,7 @@
 // gets this function from the server build (app/entry.server.tsx re-exports it, as it does unknownMethodAnswer and
 // csrfRefusal), so the shape is written once, in TypeScript, and tested here. Pure.
 import { problemBody } from "./problem.server";
+import { allowHeader } from "./methods";
 
 /** What is refused: the status, its reason phrase (RFC 9110), the sentence for the reader and, for a 405, the Allow. */
 export type Refusal = { status: number; title: string; detail: string; allow?: string };
@@ -38,7 +39,7 @@ export function refusalAnswer(pathname: string, r: Refusal, stylesheets: readonl
   const headers: Record<string, string> = {
     "Content-Type": api ? "application/problem+json" : "text/html; charset=utf-8",
     "Cache-Control": "no-store",
-    ...(r.allow ? { Allow: r.allow } : {}),
+    ...(r.allow ? { Allow: allowHeader(r.allow) } : {}), // the route's methods and OPTIONS, as its OPTIONS answer says
   };
   const body = api ? JSON.stringify(problemBody({ title: r.title, status: r.status, detail: r.detail })) : refusalPage(r, stylesheets);
   return { status: r.status, headers, body };
