@@ -235,7 +235,7 @@ export function VerdictView({ verdict, compact, testId, npshNote, npshRule, star
               {r}
             </p>
           ))}
-          <p className="mt-1 text-xs text-slate-500">Rule — {verdict.rule}</p>
+          <p className="mt-1 text-xs text-slate-500">{`Rule — ${verdict.rule}`}</p>
         </>
       )}
     </div>

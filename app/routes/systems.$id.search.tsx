@@ -59,6 +59,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     candidateSetIds(viewer, id),
   ]);
   const already = new Set(onSystem);
+  const several = pumpsBasis(res.arrangement) != null;
   return renderDeep({ // quantities in messages, reasons and "why this rank" in the user's units
     id,
     name: res.system.name,
@@ -97,9 +98,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       method: r.method,
       // The Add value: the row's method and the arrangement it was judged in, stored as the candidate's adjustment.
       pick: `${r.curveSetId}:${r.method}${pickSuffix(r.arrangement)}`,
-      // Several pumps: the duty pumps' operating point together and each pump's share (shaftPower is theirs together).
-      operatingPoint: r.operatingPoint,
-      perPump: r.perPump,
+      // Several pumps: the duty pumps' operating point together and each pump's share (shaftPower is theirs together); one pump shows neither.
+      ...(several ? { operatingPoint: r.operatingPoint, perPump: r.perPump } : {}),
       // The setting the verdict judged, with the rule it was found by (the How cell's title).
       // The rpm or Ø by the candidates table's rule (setting-step.ts; in the reader's units, a trim's whole mm beside inches).
       how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }), true)})` : ""}`,
@@ -313,7 +313,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>
                       {r.how}
-                      <ArrangementFigures units={sys} basis={basis} words={d.arrangement.words} operatingPoint={r.operatingPoint} perPump={r.perPump} testId={`search-arrangement-${r.curveSetId}`} />
+                      <ArrangementFigures units={sys} basis={basis} words={d.arrangement.words} operatingPoint={r.operatingPoint ?? null} perPump={r.perPump ?? null} testId={`search-arrangement-${r.curveSetId}`} />
                     </td>
                     <td className="max-w-xs">
                       <VerdictView verdict={r.verdict} testId={`search-verdict-${r.curveSetId}`} npshNote={r.verdictNpsh} npshRule={d.npshRule} startNote={r.verdictStart} minFlowNote={r.verdictMinFlow} />
@@ -324,7 +324,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         </details>
                       ) : null}
                       {r.searchWarnings.length ? (
-                        <p className="text-xs text-slate-600" data-testid={`search-warnings-${r.curveSetId}`}>Search at the typed duty: {r.searchWarnings.join("; ")}</p>
+                        <p className="text-xs text-slate-600" data-testid={`search-warnings-${r.curveSetId}`}>{`Search at the typed duty: ${r.searchWarnings.join("; ")}`}</p>
                       ) : null}
                     </td>
                     <td>{fmtPct(r.efficiency)}</td>
@@ -337,8 +337,8 @@ export default function Search({ actionData }: Route.ComponentProps) {
                         <span>
                           {/* No ratio where NPSHa ≤ 0 decides: the lowest NPSHa alone, without a dash for the missing range. */}
                           {r.npsh.range ?? (r.npsh.lowest || r.npsh.unjudged ? "" : "—")}
-                          {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}>{r.npsh.range ? " — " : ""}{r.npsh.lowest} ({r.npsh.status})</span> : null}
-                          {r.npsh.unjudged ? <span className="font-semibold text-duty-ink">{r.npsh.range ? " — " : ""}{r.npsh.unjudged} (unknown)</span> : null}
+                          {r.npsh.lowest ? <span className={r.npsh.status === "ok" ? "" : "font-semibold text-fail"}>{`${r.npsh.range ? " — " : ""}${r.npsh.lowest} (${r.npsh.status})`}</span> : null}
+                          {r.npsh.unjudged ? <span className="font-semibold text-duty-ink">{`${r.npsh.range ? " — " : ""}${r.npsh.unjudged} (unknown)`}</span> : null}
                         </span>
                       ) : r.npshMargin != null ? `${npshMarginText(r.npshMargin, d.npshMarginWanted)} at duty` : "—"}
                     </td>

@@ -111,24 +111,32 @@ export const renderUnits = renderQuantities;
  */
 export function renderDeep<T>(value: T, u: UnitChoice): T {
   if (typeof value === "string") return renderUnits(value, u) as T;
+  // A copy is made only once something inside changes (a loader's answer is mostly numbers and plain words: 25 search rows
+  // made about 1 000 objects and arrays here only to throw them away).
   if (Array.isArray(value)) {
-    let changed = false;
-    const out = value.map((x) => {
+    let out: unknown[] | null = null;
+    for (let i = 0; i < value.length; i++) {
+      const x = value[i];
       const y = renderDeep(x, u);
-      if (y !== x) changed = true;
-      return y;
-    });
-    return (changed ? out : value) as T;
+      if (y !== x && !out) out = value.slice(0, i);
+      if (out) out.push(y);
+    }
+    return (out ?? value) as T;
   }
   if (value && typeof value === "object" && Object.getPrototypeOf(value) === Object.prototype) {
-    let changed = false;
-    const out: Record<string, unknown> = {};
-    for (const [k, x] of Object.entries(value)) {
+    const keys = Object.keys(value);
+    const from = value as Record<string, unknown>;
+    let out: Record<string, unknown> | null = null;
+    for (let i = 0; i < keys.length; i++) {
+      const x = from[keys[i]];
       const y = renderDeep(x, u);
-      if (y !== x) changed = true;
-      out[k] = y;
+      if (y !== x && !out) {
+        out = {};
+        for (let j = 0; j < i; j++) out[keys[j]] = from[keys[j]];
+      }
+      if (out) out[keys[i]] = y;
     }
-    return (changed ? out : value) as T;
+    return (out ?? value) as T;
   }
   return value;
 }
