@@ -93,7 +93,7 @@ export function meetingsOf(s: { g: (q: number) => number; qs: number[]; gs: numb
     }
   }
   findTouches(roots, { g, qs, gs, near, xtol, maxIt, pumpHead: s.pumpHead });
-  judgeCoincidence(roots, s, near);
+  judgeCoincidence(roots, s, near, (i) => Math.abs(gs[i]) <= TOUCH_GAP * Math.abs(pumpHs[i]));
   let iterations = 0;
   for (const r of roots) iterations += r.iterations;
   // The sign of g just past each meeting (a stretch's end): below zero the pump's head falls under the system's (stable).
@@ -110,7 +110,8 @@ export function meetingsOf(s: { g: (q: number) => number; qs: number[]; gs: numb
 }
 
 /** Each touch and stretch judged by the flows about it within TOUCH_GAP of the pump's head (meetingsOf), in place. */
-function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: number[]; gs: number[]; pumpHead: (q: number) => number; xtol: number }, near: (i: number) => boolean): void {
+function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: number[]; gs: number[]; pumpHead: (q: number) => number; xtol: number },
+  near: (i: number) => boolean, sampleInGap: (i: number) => boolean): void {
   const { g, qs, gs } = s;
   const inGap = (q: number) => Math.abs(g(q)) <= TOUCH_GAP * Math.abs(s.pumpHead(q));
   const span = qs[qs.length - 1] - qs[0];
@@ -120,7 +121,7 @@ function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: numb
     const order = dir > 0 ? qs.map((_, i) => i) : qs.map((_, i) => qs.length - 1 - i);
     for (const i of order) {
       if (dir * (qs[i] - from) <= 0) continue;
-      if (inGap(qs[i])) { inside = qs[i]; continue; }
+      if (sampleInGap(i)) { inside = qs[i]; continue; }
       let out = qs[i];
       for (let it = 0; it < 200 && Math.abs(out - inside) > s.xtol; it++) {
         const m = (inside + out) / 2;
@@ -134,9 +135,9 @@ function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: numb
   // A run of samples within the gap with no meeting found in it (g of one sign, no sample at equal heads to rounding, no
   // dip: the curves run together a hair apart): a stretch where it reaches COINCIDE_SHARE (before, none, or one "touch").
   for (let i = 0; i < qs.length; i++) {
-    if (!inGap(qs[i])) continue;
+    if (!sampleInGap(i)) continue;
     let j = i;
-    while (j + 1 < qs.length && inGap(qs[j + 1])) j++;
+    while (j + 1 < qs.length && sampleInGap(j + 1)) j++;
     const a = qs[i], b = qs[j];
     if (j > i && !roots.some((r) => r.x >= a && r.x <= b) && ![...Array(j - i + 1).keys()].some((k) => near(i + k))) {
       const lo = edge(a, -1), hi = edge(b, 1), share = span > 0 ? (hi - lo) / span : 0;
