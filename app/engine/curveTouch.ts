@@ -52,7 +52,9 @@ export function leastOn(f: (x: number) => number, a: number, b: number, xtol: nu
  * A meeting of the curves: a crossing, a touch (g keeps its sign on both sides), or a stretch where they coincide; `after`,
  * where known, the sign of g just past it (a crossing or touch between two samples, which the samples cannot tell).
  */
-export type Root = { x: number; xEnd?: number; fx: number; method: "brent" | "bisection"; iterations: number; kind: "cross" | "touch" | "stretch"; side: number; after?: number };
+export type Root = { x: number; xEnd?: number; fx: number; method: "brent" | "bisection"; iterations: number; kind: "cross" | "touch" | "stretch"; side: number; after?: number;
+  /** A touch's or stretch's flows where the heads stay within TOUCH_GAP of the pump's head (`lo`–`hi`), and their share of the published flows (meetings.ts). */
+  lo?: number; hi?: number; share?: number };
 
 /**
  * Touches the samples miss or split (TOUCH_GAP, curveTouch.ts), into `roots` (sorted by flow on return): (1) a dip of

@@ -27,12 +27,13 @@
 import { EngineInputError, requireFinite, requireFiniteResult, requireInteger, type EngineWarning } from "./errors.ts";
 import { evalCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
-import { brent } from "./roots.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
 import { qt, qtPair } from "./quantityText.ts";
 import { LIMIT_ROUNDING } from "./limitText.ts";
-import { findTouches, type Root } from "./curveTouch.ts";
+import { coincideRuleText, crossingFromRest, LAST_POINT_MATCH, meetingsOf } from "./meetings.ts";
+
+export { crossingFromRest };
 
 export type OperatingStatus = "ok" | "multiple" | "no-intersection-shutoff-below-static" | "beyond-curve-end" | "coincident";
 
@@ -65,8 +66,11 @@ export interface OperatingPointResult {
    * and the first one's instability, in words with the numbers (the message's own clause); absent otherwise.
    */
   unreached?: string;
-  /** With `coincident`: the stretch where the curves coincide, flows m³/s and head m; absent otherwise. */
-  stretch?: { flowFrom: number; flowTo: number; head: number };
+  /**
+   * With `coincident`: the stretch where the curves coincide, flows m³/s and head m, and `share`, the share of the published
+   * flows (dimensionless) over which their heads stay within TOUCH_GAP of the pump's about it (meetings.ts); absent otherwise.
+   */
+  stretch?: { flowFrom: number; flowTo: number; head: number; share: number };
   warnings: EngineWarning[];
 }
 
@@ -86,26 +90,6 @@ export function solveOperatingPoint(
 }
 
 /**
- * The crossing a pump reaches from rest (common practice, from memory): started against a closed check valve, it runs only
- * when its head at the first flow is not below the system's there (equal: it stays at that point, dead-head), and then
- * settles at the first crossing where its head falls below the system's (a crossing where it rises above it again is
- * unstable: the flow runs on). The one rule `solveOperatingPoint` and the charts' sampled curves (`crossingOf`) apply.
- * @param atFirst pump head − system head at the first flow, m (or any one head unit)
- * @param afterSigns signs (dimensionless), for each crossing in ascending flow (a flow where the heads are equal at the first
- *   one included), of pump head − system head just past it: −1, +1, or 0 where nothing lies past it
- * @returns the index of the crossing reached; "cannot-start" when the pump's head at the first flow is below the system's;
- *   "beyond-curve-end" when no crossing is one where the pump's head falls below the system's
- */
-export function crossingFromRest(atFirst: number, afterSigns: readonly number[]): number | "cannot-start" | "beyond-curve-end" {
-  requireFinite("atFirst", atFirst);
-  if (!Array.isArray(afterSigns)) throw new EngineInputError("afterSigns", "must be a list of signs (−1, 0, +1)");
-  afterSigns.forEach((x, i) => requireFinite(`afterSigns[${i}]`, x));
-  if (atFirst < 0) return "cannot-start";
-  const i = afterSigns.findIndex((x) => x <= 0);
-  return i < 0 ? "beyond-curve-end" : i;
-}
-
-/**
  * Most samples per curve interval `solveOperatingPoint` takes (count; engine bound): 10 000 per interval already
  * resolves roots closer than a ten-thousandth of an interval apart, and the samples are held in memory at once.
  */
@@ -115,12 +99,6 @@ const MAX_SUBDIVISIONS = 10_000;
  * falls back to bisection (see roots.ts), so a cap past 10 000 only hides a typo (NaN, Infinity or 2.5 were taken before).
  */
 const MAX_ITERATIONS = 10_000;
-/**
- * Relative head difference (dimensionless) below which the pump's head above the system's at the curve's last point is
- * rounding, and the curves meet there: 1e-12 of the head is a few hundred ulps, far below any
- * published head's digits (a 30 m head to 3e-11 m), and far above the ulps a system curve through that point is off by.
- */
-const LAST_POINT_MATCH = 1e-12;
 
 /**
  * Pump head − system head at the pump curve's last point, with the last-point rule: heads apart by at most LAST_POINT_MATCH
@@ -206,36 +184,10 @@ function solveInner(
   const q0 = qs[0], dq0 = Math.min(q0 * 1e-6, qs[1] - q0);
   const gains0 = dq0 > 0 ? (systemHead(q0 + dq0) - systemHead(q0)) / dq0 - c.head.m[0] : 0; // m per m³/s
   if (Number.isFinite(gains0)) gs[0] = firstPointGap(evalCubic(c.head, q0) as number, systemHead(q0), { flow: q0, gains: gains0 });
-  // Where the curves run together, g is zero to rounding (LAST_POINT_MATCH of the pump's head) on two samples or more in a
-  // row: one stretch where they coincide (a flat stretch of the pump's curve against a system curve as flat at that head),
-  // not a crossing at every sample (before, 17 "intersections" of a "drooping curve" on a 30 m stretch against 30 m).
-  const pumpHs = qs.map((q) => evalCubic(c.head, q) as number);
-  const near = (i: number) => Math.abs(gs[i]) <= LAST_POINT_MATCH * Math.abs(pumpHs[i]);
-  const roots: Root[] = [];
-  const xtol = 1e-13 * c.flowMax;
-  let iterations = 0;
-  for (let i = 0; i < qs.length; i++) {
-    if (near(i)) {
-      let j = i;
-      while (j + 1 < qs.length && near(j + 1)) j++;
-      // One sample at equal heads to rounding: the curves meet there (a crossing, or a touch where g keeps its sign on
-      // both sides: one operating point, not the two crossings a rounding-level dip below zero gave before).
-      const side = i > 0 && j < qs.length - 1 ? Math.sign(gs[i - 1]) : 0;
-      const kind = j > i ? "stretch" : side !== 0 && side === Math.sign(gs[j + 1]) ? "touch" : "cross";
-      roots.push({ x: qs[i], ...(j > i ? { xEnd: qs[j] } : {}), fx: gs[i], method: "brent", iterations: 0, kind, side });
-      i = j;
-      continue;
-    }
-    if (i < qs.length - 1 && !near(i + 1) && gs[i] * gs[i + 1] < 0) {
-      const r = brent(g, qs[i], qs[i + 1], xtol, maxIt);
-      if (r) {
-        roots.push({ x: r.x, fx: r.fx, method: r.method, iterations: r.iterations, kind: "cross", side: Math.sign(gs[i]) });
-        iterations += r.iterations;
-      }
-    }
-  }
-  findTouches(roots, { g, qs, gs, near, xtol, maxIt, pumpHead: (q) => evalCubic(c.head, q) as number });
-  for (const r of roots) iterations += r.kind === "cross" && r.after !== undefined ? r.iterations : 0;
+  // The meetings (meetings.ts, the charts' rule too): crossings, touches, and stretches where the curves coincide (their
+  // heads within TOUCH_GAP of the pump's over COINCIDE_SHARE of the published flows or more; before, equal to 1e-12 on two
+  // samples in a row, however short, and a long stretch within 1e-8 but not 1e-12 was one "touch").
+  const { roots, afterSign, fromRest, iterations } = meetingsOf({ g, qs, gs, pumpHead: (q) => evalCubic(c.head, q) as number, xtol: 1e-13 * c.flowMax, maxIt });
   const points = roots.map((r) => ({ flow: r.x, head: evalCubic(c.head, r.x) as number }));
   const first = { flow: qs[0], pumpHead: evalCubic(c.head, qs[0]) as number, systemHead: systemHead(qs[0]) };
   const lastQ = qs[qs.length - 1];
@@ -243,14 +195,6 @@ function solveInner(
   const warnings: EngineWarning[] = [...c.warnings];
   const [pumpFirst, systemFirst] = qtPair("head", first.pumpHead, first.systemHead); // never read as equal beside "below"
   const lastText = qtPair("head", last.pumpHead, last.systemHead).join(" against the system's ");
-  // The sign of g just past each crossing: below zero, the pump's head falls under the system's there (stable: more flow
-  // brings less head than the system needs); above zero, it rises above it again (unstable: the flow runs on).
-  const afterSign = roots.map((r) => { // the first sample past the root (a stretch's end) not itself at equal heads
-    if (r.after !== undefined) return r.after;
-    let j = qs.findIndex((q) => q > (r.xEnd ?? r.x));
-    while (j >= 0 && j < gs.length && near(j)) j++;
-    return j < 0 || j >= gs.length ? 0 : Math.sign(gs[j]);
-  });
   const listText = (idx: number[]) => idx.map((i) => {
     const r = roots[i], at = `${qt("flow", points[i].flow)} (${qt("head", points[i].head)})`;
     return r.xEnd !== undefined ? `the stretch from ${at} to ${qt("flow", r.xEnd)} where they coincide` : r.kind === "touch" ? `${at}, where they touch` : at;
@@ -264,10 +208,7 @@ function solveInner(
     `${which} is unstable: the pump's head rises above the system's again past it, so a pump pushed past it runs on ${runsOnTo(i)}`;
   // Common practice (from memory): a pump starts against a closed check valve from rest, so its head at zero flow (the
   // shut-off head) must exceed the system's head there; below it the valve never opens, whatever crossings lie further out.
-  // A stretch where the curves coincide, and a touch from above (the pump's head above the system's on both sides), are
-  // where a pump flowing up to them stops: its head no longer exceeds the system's there (0 for crossingFromRest).
-  const stopsAt = roots.map((r, i) => (r.kind === "stretch" || (r.kind === "touch" && r.side > 0) ? 0 : afterSign[i]));
-  const fromRest = crossingFromRest(roots.length && roots[0].x === qs[0] ? 0 : gs[0], stopsAt);
+  // A stretch where the curves coincide, and a touch from above, are where a pump flowing up to them stops (meetings.ts).
   if (fromRest === "cannot-start") {
     const all = roots.map((_, i) => i);
     const unreached = `the curves ${roots.every((r) => r.kind === "cross") ? "cross" : "meet"} at ${listText(all)}, which it never reaches from rest${afterSign[0] > 0 ? `; ${unstableText(0, roots.length > 1 ? "the first" : "that crossing")}` : ""}`;
@@ -292,14 +233,14 @@ function solveInner(
   // Curves that coincide over a stretch (common practice, from memory): no single operating point; the pump may run at
   // any flow on the stretch and drifts along it. Said with the stretch's flows and head; no flow or head reported.
   if (chosen.xEnd !== undefined) {
-    const stretch = { flowFrom: chosen.x, flowTo: chosen.xEnd, head: op.head };
+    const stretch = { flowFrom: chosen.x, flowTo: chosen.xEnd, head: op.head, share: chosen.share ?? 0 };
     return { status: "coincident", flow: null, head: null, points, method: null, iterations, atFirstPoint: first, atLastPoint: last,
       warnings, stretch,
-      message: `The pump and system curves coincide from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)}: the operating point is undefined — the pump may run at any flow on that stretch and drifts along it; change the system or the pump so the curves cross` };
+      message: `The pump and system curves coincide from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)} (${coincideRuleText(stretch.share)}): the operating point is undefined — the pump may run at any flow on that stretch and drifts along it; change the system or the pump so the curves cross` };
   }
   if (chosen.kind === "touch") {
     warnings.push({ code: "touching-curves",
-      message: `the pump and system curves touch at ${qt("flow", op.flow)} (${qt("head", op.head)}) without crossing: one operating point, but a marginal one — a system head slightly lower and they part, the flow running on ${runsOnTo(chosenAt)}; slightly higher and they cross twice near it` });
+      message: `the pump and system curves touch at ${qt("flow", op.flow)} (${qt("head", op.head)}) without crossing (${coincideRuleText(chosen.share ?? 0)}): one operating point, but a marginal one — a system head slightly lower and they part, the flow running on ${runsOnTo(chosenAt)}; slightly higher and they cross twice near it` });
   }
   // A sign change that is a jump, not a crossing: the system curve steps there (Darcy friction goes from 64/Re
   // to the turbulent correlation at Re 2000, see headLoss.ts), and the pump's head lies inside the step. The

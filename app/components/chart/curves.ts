@@ -2,7 +2,8 @@
  * Curve arithmetic on point lists (any units): cleaning, linear interpolation at a flow, the band
  * between two curves, a slice of a curve, and where two curves cross. Pure; no React, no DOM.
  */
-import { crossingFromRest, firstPointGap, lastPointGap } from "../../engine/operatingPoint.ts";
+import { firstPointGap, lastPointGap } from "../../engine/operatingPoint.ts";
+import { meetingsOf } from "../../engine/meetings.ts";
 import type { Pt } from "./types.ts";
 
 /**
@@ -103,7 +104,9 @@ export function sliceCurve(points: readonly Pt[], a: number, b: number): Pt[] {
  * not known; before, the start was judged at the first flow both cover, which marked a point on a pump that cannot start),
  * or the pump's head is still above the system's at the last flow both cover (the engine may find a crossing further out).
  * At the pump curve's last point the engine's last-point rule (`lastPointGap`): heads apart by rounding only meet there;
- * at its first point the mirror (`firstPointGap`).
+ * at its first point the mirror (`firstPointGap`). The meetings themselves by the engine's rule (meetings.ts `meetingsOf`, on
+ * the samples joined by straight lines): a touch within TOUCH_GAP of the head is one point, where a pump flowing up to it
+ * stops; curves that coincide (within it over COINCIDE_SHARE of the flows) have none (null), as the engine's `coincident`.
  * Used where only sampled curves are at hand (stored field-check charts).
  */
 export function crossingOf(pump: readonly Pt[] | undefined | null, system: readonly Pt[] | undefined | null): Pt | null {
@@ -132,19 +135,18 @@ export function crossingOf(pump: readonly Pt[] | undefined | null, system: reado
     const gains = ((interpolateAt(s, next) as number) - (interpolateAt(s, lo) as number)) / (next - lo) - (p1.y - p0.y) / (p1.flow - p0.flow);
     gs[0] = firstPointGap(p0.y, interpolateAt(s, lo) as number, Number.isFinite(gains) ? { flow: lo, gains } : undefined);
   }
-  const crossings: Pt[] = [];
-  for (let i = 0; i < flows.length; i++) {
-    if (gs[i] === 0) crossings.push({ flow: flows[i], y: interpolateAt(p, flows[i]) as number });
-    else if (i > 0 && gs[i - 1] * gs[i] < 0) {
-      const flow = flows[i - 1] + (gs[i - 1] / (gs[i - 1] - gs[i])) * (flows[i] - flows[i - 1]);
-      crossings.push({ flow, y: interpolateAt(p, flow) as number });
-    }
-  }
-  // The sign of pump − system head just past each crossing: the first sampled flow beyond it where they differ (0: none).
-  const afterSigns = crossings.map((c) => {
-    const j = flows.findIndex((f, k) => f > c.flow && gs[k] !== 0);
-    return j < 0 ? 0 : Math.sign(gs[j]);
-  });
-  const at = crossingFromRest(gs[0], afterSigns);
-  return typeof at === "number" ? crossings[at] : null;
+  // The meetings by the engine's own rule (meetings.ts: crossings, touches within TOUCH_GAP of the head, stretches where the
+  // heads stay within it over COINCIDE_SHARE of the flows), on g straight between the samples: a touch is one point, where a
+  // pump flowing up to it stops, and curves that coincide have none (before, sign changes only: a touch the engine reports
+  // was no point here, a rounding-level dip two crossings, and a coincident stretch a crossing at its first sample).
+  const g = (q: number) => {
+    let k = 1;
+    while (k < last && flows[k] < q) k++;
+    const f0 = flows[k - 1], f1 = flows[k];
+    return q <= f0 ? gs[k - 1] : q >= f1 ? gs[k] : gs[k - 1] + ((gs[k] - gs[k - 1]) * (q - f0)) / (f1 - f0);
+  };
+  const m = meetingsOf({ g, qs: flows, gs, pumpHead: (q) => interpolateAt(p, q) as number, xtol: 1e-13 * Math.abs(hi), maxIt: 100 });
+  if (typeof m.fromRest !== "number") return null;
+  const r = m.roots[m.fromRest];
+  return r.kind === "stretch" ? null : { flow: r.x, y: interpolateAt(p, r.x) as number };
 }

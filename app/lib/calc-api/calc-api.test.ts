@@ -211,7 +211,7 @@ describe("POST /api/v1/calc/operating-point", () => {
     expect(r.status).toBe(200);
     expect(r.body).toMatchObject({ status: "coincident", flow_m3s: null, head_m: null, stretch: { flow_from_m3s: 0.01, flow_to_m3s: 0.02, head_m: 30 } }); // old code: no stretch
     // old code: the engine's words, "The pump and system curves coincide from 36.0 m³/h to 72.0 m³/h at 30.0 m: the operating point is undefined — …"
-    expect((r.body as { message: string }).message).toBe("No single operating point: the pump and system curves run together from 36.0 m³/h to 72.0 m³/h at 30.0 m (their heads equal to 1 part in 10¹² all along it; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross");
+    expect((r.body as { message: string }).message).toBe("No single operating point: the pump and system curves run together from 36.0 m³/h to 72.0 m³/h at 30.0 m (their heads within 1 part in 10⁸ of the pump's head over 33.3 % of the published flows; coincident from 1 %; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross");
     for (const [h, lo, hi] of [[30 * (1 - 1e-6), 0.02, 0.0201], [30 * (1 + 1e-6), 0.0099, 0.01]]) {
       const b = (await post("operating-point", { pump: flat, system: { static_head_m: h, segments: [] } })).body as { status: string; flow_m3s: number; stretch?: unknown };
       expect(b.status).toBe("ok");

@@ -19,6 +19,7 @@ import {
   type PreparedSystem,
 } from "~/engine";
 import { qt } from "~/engine/quantityText";
+import { coincideRuleText } from "~/engine/meetings";
 import {
   BODY_FIELD,
   DEFAULT_TEMPERATURE_C,
@@ -255,11 +256,11 @@ export type OperatingPointResponse = Answer<{
 }>;
 
 /**
- * The API's words for curves that run together over a stretch (engine status `coincident`: heads equal to 1 part in 10¹²
- * of the head on two samples or more in a row), with the rule and the stretch's flows and head, and where the numbers are.
+ * The API's words for curves that run together over a stretch (engine status `coincident`: heads within 1 part in 10⁸
+ * of the pump's over 1 % of the published flows or more, engine meetings.ts), with the rule and the stretch's flows and head, and where the numbers are.
  */
-function coincidentMessage(s: { flowFrom: number; flowTo: number; head: number }): string {
-  return `No single operating point: the pump and system curves run together from ${qt("flow", s.flowFrom)} to ${qt("flow", s.flowTo)} at ${qt("head", s.head)} (their heads equal to 1 part in 10¹² all along it; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross`;
+function coincidentMessage(s: { flowFrom: number; flowTo: number; head: number; share: number }): string {
+  return `No single operating point: the pump and system curves run together from ${qt("flow", s.flowFrom)} to ${qt("flow", s.flowTo)} at ${qt("head", s.head)} (${coincideRuleText(s.share)}; the stretch in stretch), so the pump may run anywhere on it and drift along it; change the system or the pump so the curves cross`;
 }
 
 /** POST /api/v1/calc/operating-point, as a pure function of the parsed JSON body. */

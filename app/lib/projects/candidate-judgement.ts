@@ -38,6 +38,7 @@ import {
   type Verdict,
 } from "~/engine";
 import { fmtPct, qt, qtPair } from "~/engine/quantityText";
+import { coincideRuleText } from "~/engine/meetings";
 import type { LiquidSolver } from "./candidate-solve";
 import { whyNoNpshr, type NpshrPublished } from "./npshr-reach";
 import { roundUpSetting, settingText, settingToken } from "./setting-step";
@@ -98,12 +99,12 @@ export function noPointReason(op: OperatingPointResult): string {
 }
 
 /**
- * Curves that run together over a stretch (engine status `coincident`: heads equal to 1 part in 10¹² of the head on two
- * samples or more in a row), in words with the rule and the stretch's flows and head: no single operating point (common
+ * Curves that run together over a stretch (engine status `coincident`: heads within 1 part in 10⁸ of the pump's over 1 % of
+ * the published flows or more, engine meetings.ts), in words with the rule and the stretch's flows and head: no single operating point (common
  * practice, from memory: a duty point needs the curves to cross; on a shared stretch the flow wanders along it).
  */
-export function coincidentReason(stretch: { flowFrom: number; flowTo: number; head: number }): string {
-  return `the pump and system curves run together from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)} (their heads equal to 1 part in 10¹² all along it), so the pump has no single operating point: it may run anywhere on that stretch and drift along it; change the system or the pump so the curves cross`;
+export function coincidentReason(stretch: { flowFrom: number; flowTo: number; head: number; share: number }): string {
+  return `the pump and system curves run together from ${qt("flow", stretch.flowFrom)} to ${qt("flow", stretch.flowTo)} at ${qt("head", stretch.head)} (${coincideRuleText(stretch.share)}), so the pump has no single operating point: it may run anywhere on that stretch and drift along it; change the system or the pump so the curves cross`;
 }
 
 export type BandPoint = {

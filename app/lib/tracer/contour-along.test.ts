@@ -33,4 +33,22 @@ describe("a contour running along the head curve from flow 12 to 18", () => {
     expect(off.filter((p) => p.level === 70).some((p) => p.touch)).toBe(false);
     expect(contourGaps(off).some((g) => g.level === 70 && g.innermost)).toBe(true); // the curve inside the island between them
   });
+  // The same island listed from another vertex: its edge along the curve is the ring's closing segment (12, 29) → (18, 26),
+  // or runs (12, 29) → (15, 27.5) → (18, 26) across the array's end; (15, 27.5) lies on the curve's segment (geometry).
+  it.each([
+    ["the run is the closing segment", [[18, 26], [16, 35], [13, 34], [12, 29]]],
+    ["the run wraps past the array's end through (15, 27.5)", [[15, 27.5], [18, 26], [16, 35], [13, 34], [12, 29]]],
+    ["the run mid-array through (15, 27.5), the guard", [[16, 35], [13, 34], [12, 29], [15, 27.5], [18, 26]]],
+  ])("an island listed so that %s: one touch, no gap", (_, pts) => {
+    const xs = crossings(curve, [lower, line(70, pts, true)]);
+    // old code (the wrapping two): [12, false], [18, false], a gap 12–18 and no efficiency at 15 (null)
+    expect(xs.filter((p) => p.level === 70).map((p) => [p.x, p.touch === true])).toEqual([[12, true], [18, true]]);
+    expect(contourGaps(xs).filter((g) => g.level === 70)).toEqual([]);
+    expect(efficiencyFromContours(xs, 15)).toBe(70);
+  });
+  it("the wrapping run 0.01 m below the curve at (15, 27.49): two crossings and the gap inside (the flip)", () => {
+    const xs = crossings(curve, [lower, line(70, [[15, 27.49], [18, 26], [16, 35], [13, 34], [12, 29]], true)]);
+    expect(xs.filter((p) => p.level === 70).some((p) => p.touch)).toBe(false);
+    expect(contourGaps(xs).some((g) => g.level === 70 && g.innermost)).toBe(true);
+  });
 });

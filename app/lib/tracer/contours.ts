@@ -156,9 +156,15 @@ function alongRuns(c: readonly XY[], xs: readonly Meeting[], contours: readonly 
     const ring = rings[p.k], closed = contours[p.k].closed && contours[p.k].points.length > 2;
     const n = ring.length - 1, norm = (t: number) => (closed && t >= n - 1e-9 ? t - n : t); // a closed ring's n is its 0
     const lo = Math.min(norm(p.s), norm(q.s)), hi = Math.max(norm(p.s), norm(q.s));
-    const between = [(lo + hi) / 2];
-    for (let t = Math.floor(lo) + 1; t < hi; t++) between.push(t);
-    if (between.every((t) => onCurve(pointAt(ring, closed, t)))) out.set(p, q);
+    // The contour between them: its midway point and its vertices from a to b along the ring.
+    const on = (a: number, b: number) => {
+      const between = [(a + b) / 2];
+      for (let t = Math.floor(a) + 1; t < b; t++) between.push(t);
+      return between.every((t) => onCurve(pointAt(ring, closed, t)));
+    };
+    // A closed ring's run may go the other way round, across the array's end (hi → lo + n): before, only lo → hi was read,
+    // and an island listed from a vertex off its run along the curve gave two crossings and a gap there.
+    if (on(lo, hi) || (closed && on(hi, lo + n))) out.set(p, q);
   }
   return out;
 }
