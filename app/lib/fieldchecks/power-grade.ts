@@ -7,6 +7,7 @@
 import type { GradeLimitCheck, GradePowerCheck, GradePowerWitness } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, gradeAllows, gradeSlack, qtPair, qt } from "~/engine/quantityText";
 import type { PowerSI } from "./form";
+import { efficiencyUpward } from "./uncertainty-bound";
 
 /** What a check judged of its grade's power and efficiency limits, stored with its result. */
 export type PowerGrade = {
@@ -195,13 +196,17 @@ function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable
  * limit missed as read: the power limit's +4 %; wider, no tolerance verdict".
  */
 function boundWords(check: GradePowerCheck, a: number): string {
+  // The efficiency's uncertainty from the power reading is a/(1 − a) upward (η = P_hyd / P; uncertainty-bound.ts, decision "effexact").
+  const up = efficiencyUpward(a);
   const limits = [
-    check.power?.pass === false ? { words: `the power limit's ${allowance(check.power.allowed, "+")}`, allowed: check.power.allowed } : null,
-    check.efficiency?.pass === false ? { words: `the efficiency limit's ${allowance(check.efficiency.allowed, "−")}`, allowed: check.efficiency.allowed } : null,
+    check.power?.pass === false ? { words: `the power limit's ${allowance(check.power.allowed, "+")}`, allowed: check.power.allowed, uncertainty: a } : null,
+    check.efficiency?.pass === false
+      ? { words: `the efficiency limit's ${allowance(check.efficiency.allowed, "−")}`, detail: ` (against the efficiency's +${fmtPctExact(up, [check.efficiency.allowed], 2)} within ±${fmtPctLimit(a)}, a/(1 − a))`, allowed: check.efficiency.allowed, uncertainty: up }
+      : null,
   ].filter((x) => x !== null);
-  const rule = `and only while ±${fmtPctLimit(a)} is no wider than the tolerance of each limit missed as read: ${limits.map((x) => x.words).join(" and ")}; wider, no tolerance verdict`;
-  // A check recorded before each limit was held to its own tolerance (decision "effbound") keeps its stored verdict: said so.
-  const wider = limits.filter((x) => a > x.allowed);
+  const rule = `and only while ±${fmtPctLimit(a)} is no wider than the tolerance of each limit missed as read: ${limits.map((x) => `${x.words}${"detail" in x ? x.detail : ""}`).join(" and ")}; wider, no tolerance verdict`;
+  // A check recorded before each limit was held to its own tolerance (decisions "effbound", "effexact") keeps its stored verdict: said so.
+  const wider = limits.filter((x) => x.uncertainty > x.allowed);
   return wider.length
     ? `${rule} — this check was recorded before that bound: ±${fmtPctLimit(a)} is wider than ${wider.map((x) => x.words).join(" and ")}, so a check recorded today would give no tolerance verdict; the stored verdict is kept`
     : rule;
