@@ -33,6 +33,7 @@ import { crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
 import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
 export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
@@ -360,7 +361,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
  * @param headUncertainty the gauges' given accuracies in quadrature over ρ·g, m
  */
 export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "flowAccuracy">, headUncertainty: number): string {
-  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${r.flowAccuracy === 0 ? "0 %" : fmtPctExact(r.flowAccuracy)}`;
+  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${pctAsTyped(r.flowAccuracy)}`;
   const missing = [r.suction.accuracy === null ? "suction" : null, r.discharge.accuracy === null ? "discharge" : null].filter((x) => x !== null);
   const head = missing.length === 2 ? "head as read: the gauges' accuracy not given"
     : `head ± ${qt("head", headUncertainty)}${missing.length ? ` (the ${missing[0]} gauge's accuracy not given)` : ""}`;
@@ -375,7 +376,7 @@ export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "fl
 function marginalMessage(engineMessage: string, withinWords: string | null, powerAccuracy: number | null): string {
   const parts = [
     withinWords ? `the readings' uncertainty ${withinWords}; see the notes on the working)` : null,
-    powerAccuracy !== null ? `the power reading's accuracy (±${fmtPctLimit(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
+    powerAccuracy !== null ? `the power reading's accuracy (±${pctAsTyped(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
   ].filter((x): x is string => x !== null);
   return parts.length ? `${engineMessage} as read; ${parts.map((x) => `within ${x}`).join("; and ")}` : engineMessage;
 }

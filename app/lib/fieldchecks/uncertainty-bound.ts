@@ -25,6 +25,7 @@
 // a ≤ t_η/(1 + t_η) (2B: ±4.76 %, not ±5 %: at ±5 % the efficiency may be 5.26 % above its reading).
 import { G0, type ToleranceGrade } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSide, qt, qtExact, qtLimit } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 
 /** The readings' uncertainty on each quantity where it is wider than the grade's tolerance on it (null where it is not). */
 export type UncertaintyTooWide = {
@@ -116,9 +117,9 @@ function sideText(band: readonly [number, number]): string {
 function compared(w: UncertaintyTooWide): string[] {
   return [
     w.head ? `head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} against ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])}` : null,
-    w.flow ? `flow ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
-    w.power ? `power ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against +${fmtPctLimit(w.power.tolerance)}` : null,
-    w.efficiency ? `efficiency +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (the power reading's ±${fmtPctLimit(w.efficiency.accuracy)}, a/(1 − a)) against ${effTol(w.efficiency.tolerance)}` : null,
+    w.flow ? `flow ±${pctAsTyped(w.flow.accuracy)} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
+    w.power ? `power ±${pctAsTyped(w.power.accuracy)} against +${fmtPctLimit(w.power.tolerance)}` : null,
+    w.efficiency ? `efficiency +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (the power reading's ±${pctAsTyped(w.efficiency.accuracy)}, a/(1 − a)) against ${effTol(w.efficiency.tolerance)}` : null,
   ].filter((x): x is string => x !== null);
 }
 
@@ -143,10 +144,10 @@ export function uncertaintyNoVerdict(w: UncertaintyTooWide, grade: Pick<Toleranc
     w.head
       ? `in head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} (the two gauges' accuracies in quadrature over ρ·g) against grade ${w.gradeId}'s ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])} (${sideText(grade.head)} of the curve's ${qt("head", w.head.curveHead)} at the measured flow)`
       : null,
-    w.flow ? `in flow the meter's ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
-    w.power ? `in power the reading's ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
+    w.flow ? `in flow the meter's ±${pctAsTyped(w.flow.accuracy)} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
+    w.power ? `in power the reading's ±${pctAsTyped(w.power.accuracy)} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
     w.efficiency
-      ? `in efficiency the power reading's ±${fmtPctLimit(w.efficiency.accuracy)}, which moves the pump's efficiency by −${fmtPctExact(efficiencyDownward(w.efficiency.accuracy), [], 2)} to +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (it is ρ·g·Q·H over the shaft power: η/(1 + a) to η/(1 − a)), the upward +a/(1 − a) — the side that would rescue a shortfall — against grade ${w.gradeId}'s ${effTol(w.efficiency.tolerance)} below the curve's efficiency${w.efficiency.tolerance === 0 ? " (it allows no shortfall, so any accuracy is wider)" : ""}`
+      ? `in efficiency the power reading's ±${pctAsTyped(w.efficiency.accuracy)}, which moves the pump's efficiency by −${fmtPctExact(efficiencyDownward(w.efficiency.accuracy), [], 2)} to +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (it is ρ·g·Q·H over the shaft power: η/(1 + a) to η/(1 − a)), the upward +a/(1 − a) — the side that would rescue a shortfall — against grade ${w.gradeId}'s ${effTol(w.efficiency.tolerance)} below the curve's efficiency${w.efficiency.tolerance === 0 ? " (it allows no shortfall, so any accuracy is wider)" : ""}`
       : null,
   ].filter((x): x is string => x !== null);
   // One power reading serves both limits: the narrower of the accuracies that would do for those too wide that allow
