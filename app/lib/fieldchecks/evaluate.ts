@@ -29,7 +29,7 @@ import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
-import { crossSummary } from "./cross";
+import { crossMissWords, crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
 import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
@@ -304,6 +304,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     dutyFlow: engine.dutyDeviation?.flow ?? null,
     dutyHead: engine.dutyDeviation?.head ?? null,
   };
+  // Outside the grade on the cross: both arms with their numbers (cross.ts), not the engine's head deviation alone.
+  const outside = "Delivered point is outside every grade checked";
+  const missWords = engine.message.startsWith(outside) ? crossMissWords({ engine, delivered: { flow: q, head: engine.tdh }, deviation, grade }) : null;
+  const engineMessage = missWords ? `${outside} (${missWords})` : engine.message;
   const speed = { rated, design, measured, rescaled, designRatio: rated !== null && design !== null ? design / rated : null };
   // The curve as selected: on a viscous custom liquid corrected as the selection's figures were (its own temperature, the
   // design speed), so its point on the system curve is the report's operating point, not the water curve's.
@@ -325,7 +329,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
       : tooWide ? uncertaintyMessage(tooWide)
       : unreadNoVerdict ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for and the measured head outside the heads it states there, so neither arm of the tolerance cross can be read (see the warnings)`
       : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
-      : `${marginalMessage(unread ? `Delivered point is off the published curve on both arms of grade ${grade.id}'s tolerance cross` : engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
+      : `${marginalMessage(unread ? `Delivered point is off the published curve on both arms of grade ${grade.id}'s tolerance cross` : engineMessage, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
