@@ -28,7 +28,7 @@ const VERDICT_RULE =
   "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty), or a power or efficiency limit " +
   "missed as read (power_dev_from_curve above power_allowed_above, or efficiency_dev_from_curve below −efficiency_allowed_below) but met within power_accuracy " +
   "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)), " +
-  "only while power_accuracy is no wider than the allowance of each limit missed as read (power_allowed_above for power, efficiency_allowed_below for efficiency: 0 for 1E and 1U, so an efficiency shortfall as read is never marginal there); wider, unknown. " +
+  "only while power_accuracy is no wider than the allowance of each limit missed as read (power_allowed_above for power; for efficiency power_accuracy/(1 − power_accuracy), the efficiency's upward uncertainty, against efficiency_allowed_below: 0 for 1E and 1U, so an efficiency shortfall as read is never marginal there); wider, unknown. " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
   "unknown: no flow meter, so flow and head are not judged; or, with one, verdict_note says why (the measured speed outside the range the curve may be translated in, " +
