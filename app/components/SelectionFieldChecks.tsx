@@ -1,6 +1,6 @@
 // The field checks recorded against a selection, on its report page (not printed: the report is the
 // frozen selection; checks come later). Each links to its own page at /field/checks/:id.
-import type { CheckTimes, Verdict } from "~/lib/fieldchecks";
+import { VERDICT_TEXT, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
 import { CheckWhen, VerdictBadge } from "./fieldcheck";
 import { ListTable } from "./ListTable";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
@@ -8,7 +8,7 @@ import { fmtDate } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
 export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string } & (
-  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; cross: string | null; power: string; note: string | null }
+  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; cross: string | null; power: string; note: string | null; today?: Verdict | null }
   | { readable: false; unreadable: string }
 );
 
@@ -44,6 +44,11 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                   <td>
                     <VerdictBadge verdict={c.verdict} />
                     {c.note ? <div className="max-w-xs text-xs text-slate-600" data-testid="verdict-note">{c.note}</div> : null}
+                    {c.today ? (
+                      <div className="max-w-xs text-xs text-slate-600" data-testid="verdict-today">
+                        Today's rules give {VERDICT_TEXT[c.today]} on these readings; the verdict recorded is kept (amend to record today's).
+                      </div>
+                    ) : null}
                   </td>
                   <td className="max-w-xs text-xs">
                     {c.rule}

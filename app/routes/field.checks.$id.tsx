@@ -9,13 +9,13 @@ import { QueryFlag, readId, readQuery } from "~/lib/shared/forms.server";
 import { can } from "~/lib/auth/permissions";
 import { getFieldCheck } from "~/lib/fieldchecks/records.server";
 import { armDeviationText, crossOf, crossSentences, verdictNote, gradeRule, inputPowerW, powerGradeSentences, SPEED_RANGE, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "~/lib/fieldchecks";
-import { fmtUtc } from "~/lib/shared/format";
+import { fmtUtc, pctAsTyped } from "~/lib/shared/format";
 import { FieldCaution, FieldCheckChart, GradeTable, VerdictBadge } from "~/components/fieldcheck";
 import { routeErrorBoundary } from "~/components/RouteError";
-import { fmtPctExact, fmtPctSignedExact } from "~/engine/quantityText";
+import { fmtPctSignedExact } from "~/engine/quantityText";
 import { flowBandHalfWidthText } from "~/engine";
 import { Crumbs } from "~/components/Crumbs";
-import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNum, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, fmtQZero, type UnitChoice } from "~/lib/shared/units";
+import { renderDeep, renderUnits, fmtFlow, fmtHead, fmtNumExact, fmtPct, fmtPower, fmtPressure, fmtQ, fmtQExact, fmtQZero, type UnitChoice } from "~/lib/shared/units";
 
 // GET /field/checks/:id — the record of one check (any version): verdict, numbers, chart, hints, photos.
 // The numbers shown are the ones stored when the check was recorded: both sides read the same record.
@@ -213,7 +213,7 @@ export default function FieldCheckRecord() {
             suction {fmtHead(sys, e.velocityHead.suction)}, discharge {fmtHead(sys, e.velocityHead.discharge)}
           </dd>
           <dt className="text-slate-600">Flow meter</dt>
-          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy === null ? " (the meter's accuracy not given)" : rd.flowAccuracy === 0 ? " ±0 %" : ` ±${fmtPctExact(rd.flowAccuracy, [(r.grade.flow[0] + r.grade.flow[1]) / 2])}`}` : "none"}</dd>
+          <dd>{rd.flow !== null ? `${fmtFlow(sys, rd.flow)}${rd.flowAccuracy === null ? " (the meter's accuracy not given)" : ` ±${pctAsTyped(rd.flowAccuracy)}`}` : "none"}</dd>
           <dt className="text-slate-600">Speed</dt>
           <dd>{rd.speed.mode === "vfd" ? `${rd.speed.hz} Hz on a ${rd.speed.baseHz} Hz / ${rd.speed.baseRpm} rpm motor → ${rpmApart} rpm` : rpm !== null ? `${rpmApart} rpm` : "not entered"}</dd>
           <dt className="text-slate-600">Power</dt>
@@ -224,7 +224,7 @@ export default function FieldCheckRecord() {
                 ? fmtPower(sys, pin)
                 : "not measured"}
             {rd.power.mode !== "none" && rd.power.motorEfficiency ? ` · motor efficiency ${fmtPct(rd.power.motorEfficiency, 0)}` : ""}
-            {rd.power.mode !== "none" ? (rd.power.readingAccuracy != null ? ` · reading accuracy ±${fmtNum(rd.power.readingAccuracy * 100, 1)} %` : " · no reading accuracy given") : ""}
+            {rd.power.mode !== "none" ? (rd.power.readingAccuracy != null ? ` · reading accuracy ±${pctAsTyped(rd.power.readingAccuracy)}` : " · no reading accuracy given") : ""}
           </dd>
           <dt className="text-slate-600">Fluid</dt>
           <dd>

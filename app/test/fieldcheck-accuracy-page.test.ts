@@ -19,6 +19,7 @@ let m: TestMember;
 let id = 0;
 let noMeter = 0; // no flow meter, both gauges' accuracy blank
 let oneGauge = 0; // no flow meter, the suction gauge's ±5 kPa, the discharge gauge's blank
+let typed = 0; // the meter's ±7 %, the power reading's ±0.25 %, as typed
 
 beforeAll(async () => {
   m = await makeMember("admin");
@@ -35,6 +36,7 @@ beforeAll(async () => {
   };
   noMeter = await record({});
   oneGauge = await record({ sAccuracy: "5" });
+  typed = await record({ flow: "0.012", flowUnit: "m3/s", flowAccuracy: "7", powerMode: "input", powerUnit: "kW", power: "5", motorEfficiency: "90", powerAccuracy: "0.25" });
 });
 
 test("the readings' rows: 'accuracy not given' for a blank, '±0 kPa' for a typed 0, '−20.0 kPa' with U+2212", async () => {
@@ -53,4 +55,11 @@ test("no flow meter: the band from gauge accuracy says which accuracy was not gi
   expect(none).not.toMatch(/width ±0 %/);
   const one = plainHtml((await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${oneGauge}`, { id: String(oneGauge) })).html);
   expect(one).toMatch(/\(head ±0\.5\d* m, the discharge gauge's accuracy not given\)/); // 5 kPa / (998.2 × 9.80665) = 0.511 m
+});
+
+test("the instruments' accuracies as typed: the meter's '±7 %' (was ±7.0 %), the power reading's '±0.25 %' (was ±0.3 %)", async () => {
+  const html = plainHtml((await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${typed}`, { id: String(typed) })).html);
+  expect(html).toContain("43.2 m³/h ±7 %</dd>");
+  expect(html).toContain(" · reading accuracy ±0.25 %");
+  expect(html).not.toMatch(/±7\.0 %|±0\.3 %/);
 });

@@ -44,7 +44,7 @@ test("the verdict's sentence on the page: missed as read, and the point within t
   expect(html).toContain('data-verdict="marginal"');
   const said = html.match(/<p class="text-sm">Delivered point[^<]*<\/p>/)?.[0] ?? "(no verdict sentence)";
   // Was: "Delivered point is outside every grade checked (head 6.1 % from curve)." alone beside "at the tolerance limit".
-  expect(said).toMatch(/Delivered point is outside every grade checked \(head \+6\.1 % from curve\) as read; within the readings' uncertainty \(flow as read: the meter's accuracy not given, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
+  expect(said).toMatch(/Delivered point is outside every grade checked \(head: the measured 29\.7\d* m is \+6\.1 % of the curve's 28\.0 m at the measured flow \(allowed −5 % to \+5 %\); flow: the measured 43\.2 m³\/h is \+[\d.]+ % of the curve's [\d.]+ m³\/h at the measured head \(allowed −8 % to \+8 %\)\) as read; within the readings' uncertainty \(flow as read: the meter's accuracy not given, head ± 0\.50* m\) 43\.2 m³\/h at 29\.\d+ m meets it \(head arm of the tolerance cross; see the notes on the working\)\./);
   expect(said).not.toContain("⟦");
   expect(html).not.toContain("⟦");
 });
@@ -59,9 +59,9 @@ test("±1000 kPa gauges (±144 m) on a pump 40 % short of 28 m: the page says no
   expect(html).not.toContain("⟦");
 });
 
-test("a flow meter of ±8 % × (1 + 1e-6): the readings' row prints ±8.00001 % as the verdict's sentence does (was ±8.0 %)", async () => {
+test("a flow meter of ±8 % × (1 + 1e-6): the readings' row prints ±8.000008 %, as typed, as the verdict's sentence does (was ±8.0 %)", async () => {
   const { html } = await loadedPage(m, checkPage, "/field/checks/:id", `/field/checks/${meter}`, { id: String(meter) });
   expect(html).toContain('data-verdict="unknown"');
-  expect(html).toContain("(flow ±8.00001 % against ±8 %)");
-  expect(html).toMatch(/Flow meter<\/dt><dd>43\.2 m³\/h ±8\.00001 %<\/dd>/);
+  expect(html).toContain("(flow ±8.000008 % against ±8 %)"); // as typed (pctAsTyped)
+  expect(html).toMatch(/Flow meter<\/dt><dd>43\.2 m³\/h ±8\.000008 %<\/dd>/);
 });

@@ -69,7 +69,7 @@ describe("the check's page states the grade's power and efficiency limits", () =
   test("power +5 % read ±2 %: missed as read, met at a lower power within the accuracy — at the tolerance limit, with that power", async () => {
     const html = await pageHtml(ids.within);
     expect(html).toContain('data-verdict="marginal"');
-    expect(html).toContain("· reading accuracy ±2.0 %");
+    expect(html).toContain("· reading accuracy ±2 %"); // as typed (pctAsTyped)
     // 1.05 × 5.243 = 5.505 kW as read; within ±2 %: 5.395 to 5.615 kW (hand calculation), shown to 3 figures; the power meeting the limits is
     // between 5.395 kW (the lowest) and 5.453 kW (+4 %).
     expect(html).toMatch(/Power reading accuracy ±2 % of the reading \(shaft 5\.40 kW to 5\.62 kW\): the limits are missed as read, but within that accuracy a shaft power of 5\.4\d kW \(−[\d.]+ % of the reading\) meets them/);

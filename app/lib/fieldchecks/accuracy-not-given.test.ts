@@ -46,13 +46,13 @@ describe("the verdict's sentence names an accuracy not given", () => {
     const r = evaluateCheck(f, parsed({ sAccuracy: String(0.5 * RHO20 * G0 / 1000), flowAccuracy: "2" }).readings, "2B");
     expect(r.verdict).toBe("marginal");
     // Was: "(flow ± 2.0 %, head ± 0.5 m)", the blank discharge gauge counted as a perfect one without a word.
-    expect(r.message).toMatch(/within the readings' uncertainty \(flow ± 2\.0 %, head ± ⟦head\|0\.5\d*⟧ \(the discharge gauge's accuracy not given\)\) /);
+    expect(r.message).toMatch(/within the readings' uncertainty \(flow ± 2 %, head ± ⟦head\|0\.5\d*⟧ \(the discharge gauge's accuracy not given\)\) /);
   });
   test("both gauges blank, the meter's ±0 typed: 'head as read', 'flow ± 0 %'", () => {
     // 28 × 1.05 + 0.3 m is a fail as read with nothing to widen it; with the meter ±4 % the flow arm reaches (marginal).
     const r = evaluateCheck(f, parsed({ flowAccuracy: "4" }).readings, "2B");
     expect(r.verdict).toBe("marginal");
-    expect(r.message).toMatch(/within the readings' uncertainty \(flow ± 4\.0 %, head as read: the gauges' accuracy not given\) /); // was "head ± 0 m"
+    expect(r.message).toMatch(/within the readings' uncertainty \(flow ± 4 %, head as read: the gauges' accuracy not given\) /); // was "head ± 0 m"
     const zero = evaluateCheck(f, parsed({ sAccuracy: gaugeKPa, dAccuracy: gaugeKPa, flowAccuracy: "0" }).readings, "2B");
     expect(zero.message).toMatch(/within the readings' uncertainty \(flow ± 0 %, head ± ⟦head\|0\.5\d*⟧\) /); // typed 0: given
     const blank = evaluateCheck(f, parsed({ sAccuracy: gaugeKPa, dAccuracy: gaugeKPa }).readings, "2B");

@@ -3,7 +3,7 @@
 // stored check result (older results without the engine's cross are read from their deviations, which
 // are the same two numbers), so the page and the e-mail explain every stored check the same way.
 import type { CheckResult } from "./result";
-import { fmtPctExact, fmtPctLimit, fmtPctSide, gradeAllows, gradeSlack, qt } from "~/engine/quantityText";
+import { fmtPctExact, fmtPctLimit, fmtPctSide, gradeAllows, gradeSlack, qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 export type CrossArm = {
   arm: "head" | "flow";
@@ -132,4 +132,23 @@ export function crossSummary(r: Pick<CheckResult, "engine" | "delivered" | "devi
     return `${a.arm} ${armDeviationText(a)} of the curve's ${qt(a.arm, a.curveValue)} at the measured ${other} (allowed ${tol(a.allowed)}), ${state}`;
   };
   return `Tolerance cross of grade ${x.grade}, as read (either arm meets it): ${said(x.head)}; ${said(x.flow)}.`;
+}
+
+/**
+ * Both arms of a cross missed as read, each with its numbers (quantity tokens): the measured value, the deviation as the
+ * verdict reads it, the curve's value it is taken of and the arm's allowance — "head: the measured ⟦30 m⟧ is +7.1 % of the
+ * curve's ⟦28 m⟧ at the measured flow (allowed −5 % to +5 %); flow: the measured ⟦43.2 m³/h⟧ is +20.0 % of the curve's
+ * ⟦36 m³/h⟧ at the measured head (allowed −8 % to +8 %)"; an arm off the curve "not read". For the verdict's sentence of a
+ * check outside the grade (evaluate.ts), which named the head arm's deviation alone. Null without a cross (no flow meter).
+ * @param r the check's engine result, delivered point, deviations and grade
+ */
+export function crossMissWords(r: Pick<CheckResult, "engine" | "delivered" | "deviation" | "grade">): string | null {
+  const x = crossOf(r);
+  if (!x) return null;
+  const said = (a: CrossArm) => {
+    const other = a.arm === "head" ? "flow" : "head";
+    if (a.deviation === null || a.curveValue === null) return `${a.arm} arm not read (the curve gives no ${a.arm} at the measured ${other})`;
+    return `${a.arm}: the measured ${qtExact(a.arm, a.measured, [a.curveValue])} is ${armDeviationText(a)} of the curve's ${qtLimit(a.arm, a.curveValue, [a.measured])} at the measured ${other} (allowed ${tol(a.allowed)})`;
+  };
+  return `${said(x.head)}; ${said(x.flow)}`;
 }

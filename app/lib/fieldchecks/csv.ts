@@ -9,7 +9,7 @@ import { inSI } from "~/engine/quantityText";
 import { UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 import type { CheckTimes } from "./taken-at";
 
-type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string };
+type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string; /** Today's verdict on the readings where it differs from the stored one (judged-today.ts); null or missing where not. */ verdictToday?: Verdict | null };
 
 /** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
 export type CheckHistoryForCsv = {
@@ -28,13 +28,14 @@ const VERDICT_RULE =
   "marginal: missed as read but met within the readings' uncertainty (flow meter accuracy, gauge head uncertainty), or a power or efficiency limit " +
   "missed as read (power_dev_from_curve above power_allowed_above, or efficiency_dev_from_curve below −efficiency_allowed_below) but met within power_accuracy " +
   "(power_limits \"met within accuracy\", power_limits_within_accuracy met: met at the lowest power within it, reading × (1 − power_accuracy)), " +
-  "only while power_accuracy is no wider than the allowance of each limit missed as read (power_allowed_above for power, efficiency_allowed_below for efficiency: 0 for 1E and 1U, so an efficiency shortfall as read is never marginal there); wider, unknown. " +
+  "only while power_accuracy is no wider than the allowance of each limit missed as read (power_allowed_above for power; for efficiency power_accuracy/(1 − power_accuracy), the efficiency's upward uncertainty, against efficiency_allowed_below: 0 for 1E and 1U, so an efficiency shortfall as read is never marginal there); wider, unknown. " +
   "fail: missed, or a power or efficiency limit missed as read with no power_accuracy given (blank) or missed beyond it (power_limits_within_accuracy not met). " +
   "power_limit and efficiency_limit: each limit on its own, whatever the verdict (met, met within accuracy, not met; blank where not judged). " +
   "unknown: no flow meter, so flow and head are not judged; or, with one, verdict_note says why (the measured speed outside the range the curve may be translated in, " +
   "a liquid with no curve to hold the pump to, a suction reading at or below the liquid's vapour pressure (misread, or the pump cavitating), the readings' uncertainty wider than the grade's tolerance (head, flow, or power_accuracy as above), a measured flow outside the flows the curve is published for that the grade's flow arm does not reach, " +
   "or one whose flow arm reaches them at a measured head the published curve does not state, so that neither arm can be read as read). " +
-  "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so.";
+  "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so. " +
+  "verdict is the one recorded, kept as recorded; verdict_today is what the row's own readings give under today's rules where that differs (a rule changed since it was recorded; amending records it), blank where they agree or cannot be judged today.";
 
 /** The quantities a note may carry (verdict-note words: flows, heads, pressures, power, temperature, speed). */
 const NOTE_QUANTITIES: readonly Quantity[] = ["flow", "head", "pressure", "power", "temperature", "speed"];
@@ -63,7 +64,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     [VERDICT_RULE],
     ...unreadable,
     [
-      "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "verdict_note", "grade", "flow_source",
+      "check_id", "chain_id", "version", "superseded", "recorded_at", "taken_at_device_clock", "device_clock_flags", "recorded_by", "workspace", "verdict", "verdict_today", "verdict_note", "grade", "flow_source",
       "flow_m3s", "flow_band_low_m3s", "flow_band_high_m3s", "tdh_m", "curve_head_m", "head_dev_from_curve", "flow_dev_from_curve",
       "head_allowed_below", "head_allowed_above", "flow_allowed_below", "flow_allowed_above",
       "duty_flow_m3s", "duty_head_m", "flow_dev_from_duty", "head_dev_from_duty", "speed_rpm", "input_power_w", "overall_efficiency",
@@ -77,7 +78,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
     if (!c.readable) continue;
     const r = c.result;
     lines.push([
-        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, verdictNote(r) === null ? "" : inSI(verdictNote(r)!), c.grade, r.engine.flowSource,
+        c.id, c.chainId, c.version, c.superseded ? "yes" : "no", c.createdAt, c.times.takenAt, c.times.warnings.join(" "), c.byName, c.byWorkspace, c.verdict, c.verdictToday ?? "", verdictNote(r) === null ? "" : inSI(verdictNote(r)!), c.grade, r.engine.flowSource,
         r.delivered.flow, r.engine.flowBand?.low, r.engine.flowBand?.high, r.delivered.head, r.engine.curveHead, r.deviation.curveHead, r.deviation.curveFlow,
         r.grade.head[0], r.grade.head[1], r.grade.flow[0], r.grade.flow[1],
         r.duty?.flow, r.duty?.head, r.deviation.dutyFlow, r.deviation.dutyHead, r.speed.measured, r.power?.input, r.power?.overall,

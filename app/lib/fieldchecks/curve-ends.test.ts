@@ -67,7 +67,7 @@ describe("beyond the curve's last point (0.03 m³/s at 10 m)", () => {
     expect(check(10, q).verdict).toBe("unknown");
     const r = check(10, q, { extra: { flowAccuracy: "2" } });
     expect(r.verdict).not.toBe("unknown");
-    expect(noted(r)[0]).toContain("grade 2B's flow arm (+8 %, from the lowest flow within the meter's ±2.0 %) reaches back to");
+    expect(noted(r)[0]).toContain("grade 2B's flow arm (+8 %, from the lowest flow within the meter's ±2 %) reaches back to");
   });
 });
 

@@ -13,7 +13,8 @@
 // then at the tolerance limit, as anywhere else, and the note says the reading itself could not be read. Was: "outside
 // tolerance" with both arms "not read". Pure.
 import { headAt, type PumpCurve, type ToleranceGrade } from "~/engine";
-import { fmtPctExact, fmtPctLimit, qtExact, qtLimit } from "~/engine/quantityText";
+import { fmtPctLimit, qtExact, qtLimit } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 
 /** Where a measured flow lies against the published curve's flows, and how far the flow arm of the cross reaches. */
 export type CurveEnd = {
@@ -56,7 +57,7 @@ function where(e: CurveEnd): string {
 /** The flow arm's reach in words: "grade 2B's flow arm (+8 %) reaches back only to ⟦R⟧". */
 function armWords(e: CurveEnd, gradeId: string, grade: Pick<ToleranceGrade, "flow">, flowAccuracy: number): string {
   const t = e.side === "beyond" ? `+${fmtPctLimit(grade.flow[1])}` : grade.flow[0] === 0 ? "0 %" : `−${fmtPctLimit(grade.flow[0])}`;
-  const meter = flowAccuracy > 0 ? `, from the ${e.side === "beyond" ? "lowest" : "highest"} flow within the meter's ±${fmtPctExact(flowAccuracy)}` : "";
+  const meter = flowAccuracy > 0 ? `, from the ${e.side === "beyond" ? "lowest" : "highest"} flow within the meter's ±${pctAsTyped(flowAccuracy)}` : "";
   const reach = Number.isFinite(e.reach) ? qtExact("flow", e.reach, [e.end]) : "any flow";
   return `grade ${gradeId}'s flow arm (${t}${meter}) reaches ${e.side === "beyond" ? "back" : "up"} ${e.reaches ? "to" : "only to"} ${reach}`;
 }

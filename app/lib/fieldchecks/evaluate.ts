@@ -29,10 +29,11 @@ import { powerGradeOf, powerGradeSummary } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
 import type { CheckResult, Pt } from "./result";
-import { crossSummary } from "./cross";
+import { crossMissWords, crossSummary } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
 import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 
 /** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
 export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
@@ -303,6 +304,10 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
     dutyFlow: engine.dutyDeviation?.flow ?? null,
     dutyHead: engine.dutyDeviation?.head ?? null,
   };
+  // Outside the grade on the cross: both arms with their numbers (cross.ts), not the engine's head deviation alone.
+  const outside = "Delivered point is outside every grade checked";
+  const missWords = engine.message.startsWith(outside) ? crossMissWords({ engine, delivered: { flow: q, head: engine.tdh }, deviation, grade }) : null;
+  const engineMessage = missWords ? `${outside} (${missWords})` : engine.message;
   const speed = { rated, design, measured, rescaled, designRatio: rated !== null && design !== null ? design / rated : null };
   // The curve as selected: on a viscous custom liquid corrected as the selection's figures were (its own temperature, the
   // design speed), so its point on the system curve is the report's operating point, not the water curve's.
@@ -324,7 +329,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
       : tooWide ? uncertaintyMessage(tooWide)
       : unreadNoVerdict ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for and the measured head outside the heads it states there, so neither arm of the tolerance cross can be read (see the warnings)`
       : curveEnd && !curveEnd.reaches ? `Delivered point not judged against grade ${grade.id}: the measured flow is outside the flows the curve is published for, and the tolerance cross does not reach them (see the warnings)`
-      : `${marginalMessage(unread ? `Delivered point is off the published curve on both arms of grade ${grade.id}'s tolerance cross` : engine.message, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
+      : `${marginalMessage(unread ? `Delivered point is off the published curve on both arms of grade ${grade.id}'s tolerance cross` : engineMessage, withinWords, powerWithin && verdict === "marginal" ? powerAccuracy : null)}${curveEnd ? " — judged on the published part of the curve only (see the warnings)" : ""}`,
     engine,
     fluid: { name: fluid.name, density: rho },
     speed,
@@ -360,7 +365,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
  * @param headUncertainty the gauges' given accuracies in quadrature over ρ·g, m
  */
 export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "flowAccuracy">, headUncertainty: number): string {
-  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${r.flowAccuracy === 0 ? "0 %" : fmtPctExact(r.flowAccuracy)}`;
+  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${pctAsTyped(r.flowAccuracy)}`;
   const missing = [r.suction.accuracy === null ? "suction" : null, r.discharge.accuracy === null ? "discharge" : null].filter((x) => x !== null);
   const head = missing.length === 2 ? "head as read: the gauges' accuracy not given"
     : `head ± ${qt("head", headUncertainty)}${missing.length ? ` (the ${missing[0]} gauge's accuracy not given)` : ""}`;
@@ -375,7 +380,7 @@ export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "fl
 function marginalMessage(engineMessage: string, withinWords: string | null, powerAccuracy: number | null): string {
   const parts = [
     withinWords ? `the readings' uncertainty ${withinWords}; see the notes on the working)` : null,
-    powerAccuracy !== null ? `the power reading's accuracy (±${fmtPctLimit(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
+    powerAccuracy !== null ? `the power reading's accuracy (±${pctAsTyped(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
   ].filter((x): x is string => x !== null);
   return parts.length ? `${engineMessage} as read; ${parts.map((x) => `within ${x}`).join("; and ")}` : engineMessage;
 }

@@ -66,7 +66,7 @@ for (const g of TOLERANCE_GRADES) {
       expect(sum(outside)).toMatch(re("not met"));
       apart(sum(outside), allowed(g.head[i], s < 0 ? "−" : "+"));
       expect([pageArm(inside, "Head"), pageArm(outside, "Head")].map((l) => / — (not )?met/.exec(l)?.[0])).toEqual([" — met", " — not met"]);
-      expect(inSI(outside.message)).toMatch(/^Delivered point is outside every grade checked \(head [+−][\d.]+ % from curve\)$/);
+      expect(inSI(outside.message)).toMatch(/^Delivered point is outside every grade checked \(head: the measured [\d.]+ m is [+−][\d.]+ % of the curve's [\d.]+ m at the measured flow \(allowed [^)]+\); flow(: the measured [\d.]+ m³\/h is [+−][\d.]+ % of the curve's [\d.]+ m³\/h at the measured head \(allowed [^)]+\)| arm not read \(the curve gives no flow at the measured head\))\)$/);
     });
 
     test.each(sides)("flow arm %s: 1e-7 inside met, outside not met (H = 15 m)", (_, i, s) => {

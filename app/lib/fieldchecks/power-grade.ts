@@ -6,7 +6,9 @@
 // the check says so. Pure: evaluate.ts stores `PowerGrade` with the result, the page and the e-mail read the sentences.
 import type { GradeLimitCheck, GradePowerCheck, GradePowerWitness } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSignedExact, gradeAllows, gradeSlack, qtPair, qt } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 import type { PowerSI } from "./form";
+import { efficiencyUpward } from "./uncertainty-bound";
 
 /** What a check judged of its grade's power and efficiency limits, stored with its result. */
 export type PowerGrade = {
@@ -66,7 +68,7 @@ export function powerGradeState(pg: PowerGrade | null | undefined): "met" | "wit
 /** A deviation with its sign, never reading as the allowance it is judged against (a fraction ≥ 0). */
 const signed = (x: number, allowed: number) => fmtPctSignedExact(x, [allowed], true);
 /** An allowance as typed, with its side: "+4 %", "−3 %", and "0 %" for none. */
-const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${fmtPctLimit(a)}`);
+const allowance = (a: number, side: "+" | "−") => (a === 0 ? "0 %" : `${side}${pctAsTyped(a)}`);
 
 /**
  * A deviation against its allowance as judged (power: above the curve's, side "+"; efficiency: below, side "−"), e.g.
@@ -120,8 +122,8 @@ const limitValue = (x: GradeLimitCheck, side: "+" | "−") => (x.curve ?? NaN) *
  */
 function withinWords(x: GradeLimitCheck, low: GradeLimitCheck, a: number, side: "+" | "−", nested = false): string {
   const ofLimit = x.measured / limitValue(x, side);
-  const why = `read ${fmtPctExact(ofLimit, [1])} of the limit; at the lowest power within it, reading × (1 − ${fmtPctLimit(a)}), ${signed(low.deviation!, low.allowed)} ${side === "+" ? "≤" : "≥"} ${allowance(low.allowed, side)} allowed`;
-  return `met within the meter's ±${fmtPctLimit(a)}${nested ? `: ${why}` : ` (${why})`}`;
+  const why = `read ${fmtPctExact(ofLimit, [1])} of the limit; at the lowest power within it, reading × (1 − ${pctAsTyped(a)}), ${signed(low.deviation!, low.allowed)} ${side === "+" ? "≤" : "≥"} ${allowance(low.allowed, side)} allowed`;
+  return `met within the meter's ±${pctAsTyped(a)}${nested ? `: ${why}` : ` (${why})`}`;
 }
 
 /**
@@ -180,9 +182,9 @@ function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable
   if (a === null)
     return "No power reading accuracy was given, so the power and efficiency limits are judged as read: a limit missed by any margin makes the check a fail. Enter the meter's accuracy (± % of the reading) to allow for it.";
   const shaft = basis.input * basis.motorEfficiency;
-  const head = `Power reading accuracy ±${fmtPctLimit(a)} of the reading (shaft ${qt("power", shaft * (1 - a))} to ${qt("power", shaft * (1 + a))})`;
+  const head = `Power reading accuracy ±${pctAsTyped(a)} of the reading (shaft ${qt("power", shaft * (1 - a))} to ${qt("power", shaft * (1 + a))})`;
   if (check.pass) return `${head}: the limits are met as read, which decides (a reading meeting a limit as read is not marked down for its accuracy, as for flow and head).`;
-  const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${fmtPctLimit(a)}), at the flow and head as read (their uncertainty is allowed for on the tolerance cross only)`;
+  const rule = `a limit missed as read is met within the accuracy when it is met at the lowest power within it, reading × (1 − ${pctAsTyped(a)}), at the flow and head as read (their uncertainty is allowed for on the tolerance cross only)`;
   const w = pg.within;
   if (w)
     return `${head}: the limits are missed as read, but within that accuracy a shaft power of ${qt("power", w.shaft)} (${fmtPctSignedExact(w.shaft / shaft - 1, [-a], true)} of the reading) meets them — ${limitsAt(w.check)} — so the verdict is at the tolerance limit (marginal), not a fail (${rule}; ${boundWords(check, a)}).`;
@@ -195,15 +197,19 @@ function accuracyLine(pg: PowerGrade, check: GradePowerCheck, basis: NonNullable
  * limit missed as read: the power limit's +4 %; wider, no tolerance verdict".
  */
 function boundWords(check: GradePowerCheck, a: number): string {
+  // The efficiency's uncertainty from the power reading is a/(1 − a) upward (η = P_hyd / P; uncertainty-bound.ts, decision "effexact").
+  const up = efficiencyUpward(a);
   const limits = [
-    check.power?.pass === false ? { words: `the power limit's ${allowance(check.power.allowed, "+")}`, allowed: check.power.allowed } : null,
-    check.efficiency?.pass === false ? { words: `the efficiency limit's ${allowance(check.efficiency.allowed, "−")}`, allowed: check.efficiency.allowed } : null,
+    check.power?.pass === false ? { words: `the power limit's ${allowance(check.power.allowed, "+")}`, allowed: check.power.allowed, uncertainty: a } : null,
+    check.efficiency?.pass === false
+      ? { words: `the efficiency limit's ${allowance(check.efficiency.allowed, "−")}`, detail: ` (against the efficiency's +${fmtPctExact(up, [check.efficiency.allowed], 2)} within ±${pctAsTyped(a)}, a/(1 − a))`, allowed: check.efficiency.allowed, uncertainty: up }
+      : null,
   ].filter((x) => x !== null);
-  const rule = `and only while ±${fmtPctLimit(a)} is no wider than the tolerance of each limit missed as read: ${limits.map((x) => x.words).join(" and ")}; wider, no tolerance verdict`;
-  // A check recorded before each limit was held to its own tolerance (decision "effbound") keeps its stored verdict: said so.
-  const wider = limits.filter((x) => a > x.allowed);
+  const rule = `and only while ±${pctAsTyped(a)} is no wider than the tolerance of each limit missed as read: ${limits.map((x) => `${x.words}${"detail" in x ? x.detail : ""}`).join(" and ")}; wider, no tolerance verdict`;
+  // A check recorded before each limit was held to its own tolerance (decisions "effbound", "effexact") keeps its stored verdict: said so.
+  const wider = limits.filter((x) => x.uncertainty > x.allowed);
   return wider.length
-    ? `${rule} — this check was recorded before that bound: ±${fmtPctLimit(a)} is wider than ${wider.map((x) => x.words).join(" and ")}, so a check recorded today would give no tolerance verdict; the stored verdict is kept`
+    ? `${rule} — this check was recorded before that bound: ±${pctAsTyped(a)} is wider than ${wider.map((x) => x.words).join(" and ")}, so a check recorded today would give no tolerance verdict; the stored verdict is kept`
     : rule;
 }
 
@@ -258,7 +264,7 @@ function accuracyClause(pg: PowerGrade, check: GradePowerCheck): string {
   const a = pg.accuracy ?? null;
   if (check.pass === null) return "";
   if (a === null) return "; judged as read, no power reading accuracy was given";
-  const acc = `the power reading's ±${fmtPctLimit(a)}`;
+  const acc = `the power reading's ±${pctAsTyped(a)}`;
   if (check.pass) return `; met as read (${acc} not needed)`;
   if (pg.within) return `; met within ${acc} at shaft ${qt("power", pg.within.shaft)} (${limitsAt(pg.within.check)}), so at the tolerance limit`;
   return `; missed even at the lowest power within ${acc} (${limitsAt(atLowest(check, a))})`;

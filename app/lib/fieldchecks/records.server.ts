@@ -177,10 +177,16 @@ export async function checkHistory(viewer: Viewer, selectionId: number) {
   return { selection: sel, checks: await checksOf(sel.id) };
 }
 
-/** Every check of a selection, newest first, without its frozen document (the checks' CSV: each check carries its own result). */
+/**
+ * Every check of a selection, newest first (the checks' CSV: each check carries its own result), each with `verdictToday`:
+ * its readings judged under today's rules against the frozen document where that differs from the stored verdict, else null
+ * (agreeing, not judgeable today, or a frozen document that does not read: the stored verdict stands alone).
+ */
 export async function checkRecords(viewer: Viewer, selectionId: number) {
-  const { record: _record, ...sel } = await fieldSelectionRecord(viewer, selectionId);
-  return { selection: sel, checks: await checksOf(sel.id) };
+  const { record, ...sel } = await fieldSelectionRecord(viewer, selectionId);
+  const frozen = readStoredSelection(record.frozenJson);
+  const today = (c: Awaited<ReturnType<typeof checksOf>>[number]) => (c.readable && frozen.ok ? (judgedToday(frozen.frozen, c.readings, c.grade, c.verdict)?.verdict ?? null) : null);
+  return { selection: sel, checks: (await checksOf(sel.id)).map((c) => ({ ...c, verdictToday: today(c) })) };
 }
 
 /**

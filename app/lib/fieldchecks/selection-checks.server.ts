@@ -10,6 +10,7 @@ import { powerGradeSummary } from "./power-grade";
 import { unreadableCheckText } from "./stored-check";
 import { verdictNote } from "./result";
 import { crossSummary } from "./cross";
+import { judgedToday } from "./judged-today";
 
 export async function checksOfSelection(selection: Awaited<ReturnType<typeof getSelection>>) {
   return (await checksOf(selection.id)).map((c) => {
@@ -29,6 +30,8 @@ export async function checksOfSelection(selection: Awaited<ReturnType<typeof get
       power: powerGradeSummary(c.result),
       /** Why no verdict where a flow was measured, or that it was judged on the published part of the curve only (the page's note; quantity tokens), or null. */
       note: verdictNote(c.result),
+      /** Today's verdict on the check's own readings where it differs from the stored one (judged-today.ts), or null. */
+      today: judgedToday(selection.frozen, c.readings, c.grade, c.verdict)?.verdict ?? null,
     };
   });
 }

@@ -19,8 +19,13 @@
 // (t_η = 0), so any accuracy is wider: a shortfall as read is never "at the tolerance limit" there (±9 % made a 1U pump
 // 8.7 % short of its curve's efficiency marginal). Wider (a > t; equal is within), no tolerance verdict, with both numbers.
 // A limit met as read is not held to anything (a reading met as read is not marked down for its accuracy).
+// The efficiency's uncertainty is not the power reading's ±a (decision "effexact"): η = P_hyd / P, so a power read to ±a puts
+// the true efficiency in [η/(1 + a), η/(1 − a)] — −a/(1 + a) to +a/(1 − a) of the reading (the relative error of a quotient,
+// hand algebra). A shortfall is rescued on the upward side, so the efficiency limit is held to a/(1 − a) ≤ t_η, i.e.
+// a ≤ t_η/(1 + t_η) (2B: ±4.76 %, not ±5 %: at ±5 % the efficiency may be 5.26 % above its reading).
 import { G0, type ToleranceGrade } from "~/engine";
 import { fmtPctExact, fmtPctLimit, fmtPctSide, qt, qtExact, qtLimit } from "~/engine/quantityText";
+import { pctAsTyped } from "../shared/format";
 
 /** The readings' uncertainty on each quantity where it is wider than the grade's tolerance on it (null where it is not). */
 export type UncertaintyTooWide = {
@@ -31,7 +36,10 @@ export type UncertaintyTooWide = {
   flow: { accuracy: number; tolerance: number } | null;
   /** Fractions: the power reading's accuracy and the grade's power tolerance (above the curve's); null or missing where within. */
   power?: { accuracy: number; tolerance: number } | null;
-  /** Fractions: the power reading's accuracy and the grade's efficiency tolerance (below the curve's; 0 for 1E, 1U); null or missing where within. */
+  /**
+   * Fractions: the power reading's accuracy and the grade's efficiency tolerance (below the curve's; 0 for 1E, 1U); null or
+   * missing where within. Compared through {@link efficiencyUpward}, a/(1 − a), not a.
+   */
   efficiency?: { accuracy: number; tolerance: number } | null;
 };
 
@@ -65,9 +73,23 @@ export function uncertaintyTooWide(grade: Pick<ToleranceGrade, "id" | "head" | "
 }
 
 /**
+ * How far the pump's efficiency may lie above its reading when the power is read to ±`a`: η/(1 − a) − 1 = a/(1 − a)
+ * (η = P_hyd / P; the lowest power within the accuracy, P(1 − a), gives the highest efficiency). Infinite for a ≥ 1.
+ * @param a the power reading's accuracy, ± fraction of the reading
+ */
+export const efficiencyUpward = (a: number): number => (a < 1 ? a / (1 - a) : Infinity);
+
+/**
+ * How far the pump's efficiency may lie below its reading when the power is read to ±`a`: 1 − η/(1 + a) / η = a/(1 + a).
+ * @param a the power reading's accuracy, ± fraction of the reading
+ */
+export const efficiencyDownward = (a: number): number => a / (1 + a);
+
+/**
  * The power and efficiency limits missed as read — so met, if at all, only within the power reading's accuracy — whose own
- * tolerance the accuracy is wider than (a > t, strictly; equal is within): the power limit against t_P, the efficiency limit
- * against t_η (0 for 1E and 1U, so any accuracy above 0). Null where none is, where no accuracy was given (judged as read) or
+ * tolerance the uncertainty it gives is wider than (strictly; equal is within): the power limit, a > t_P; the efficiency
+ * limit, a/(1 − a) > t_η (the efficiency's upward uncertainty, {@link efficiencyUpward}; t_η is 0 for 1E and 1U, so any
+ * accuracy above 0). Null where none is, where no accuracy was given (judged as read) or
  * where no limit was missed as read.
  * @param grade tolerance grade (fractions)
  * @param accuracy the power reading's accuracy, ± fraction of the reading, or null when not given
@@ -79,9 +101,9 @@ export function powerLimitsTooWide(
   missed: { power: boolean; efficiency: boolean },
 ): { power: { accuracy: number; tolerance: number } | null; efficiency: { accuracy: number; tolerance: number } | null } | null {
   if (accuracy === null) return null;
-  const one = (isMissed: boolean, tolerance: number | undefined) => (isMissed && tolerance !== undefined && accuracy > tolerance ? { accuracy, tolerance } : null);
-  const power = one(missed.power, grade.powerAbove);
-  const efficiency = one(missed.efficiency, grade.efficiencyBelow);
+  const one = (isMissed: boolean, tolerance: number | undefined, uncertainty: number) => (isMissed && tolerance !== undefined && uncertainty > tolerance ? { accuracy, tolerance } : null);
+  const power = one(missed.power, grade.powerAbove, accuracy);
+  const efficiency = one(missed.efficiency, grade.efficiencyBelow, efficiencyUpward(accuracy));
   return power || efficiency ? { power, efficiency } : null;
 }
 
@@ -95,9 +117,9 @@ function sideText(band: readonly [number, number]): string {
 function compared(w: UncertaintyTooWide): string[] {
   return [
     w.head ? `head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} against ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])}` : null,
-    w.flow ? `flow ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
-    w.power ? `power ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against +${fmtPctLimit(w.power.tolerance)}` : null,
-    w.efficiency ? `efficiency ±${fmtPctExact(w.efficiency.accuracy, [w.efficiency.tolerance])} (the power reading's) against ${effTol(w.efficiency.tolerance)}` : null,
+    w.flow ? `flow ±${pctAsTyped(w.flow.accuracy)} against ±${fmtPctLimit(w.flow.tolerance)}` : null,
+    w.power ? `power ±${pctAsTyped(w.power.accuracy)} against +${fmtPctLimit(w.power.tolerance)}` : null,
+    w.efficiency ? `efficiency +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (the power reading's ±${pctAsTyped(w.efficiency.accuracy)}, a/(1 − a)) against ${effTol(w.efficiency.tolerance)}` : null,
   ].filter((x): x is string => x !== null);
 }
 
@@ -122,14 +144,15 @@ export function uncertaintyNoVerdict(w: UncertaintyTooWide, grade: Pick<Toleranc
     w.head
       ? `in head ±${qtExact("head", w.head.uncertainty, [w.head.tolerance])} (the two gauges' accuracies in quadrature over ρ·g) against grade ${w.gradeId}'s ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])} (${sideText(grade.head)} of the curve's ${qt("head", w.head.curveHead)} at the measured flow)`
       : null,
-    w.flow ? `in flow the meter's ±${fmtPctExact(w.flow.accuracy, [w.flow.tolerance])} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
-    w.power ? `in power the reading's ±${fmtPctExact(w.power.accuracy, [w.power.tolerance])} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
+    w.flow ? `in flow the meter's ±${pctAsTyped(w.flow.accuracy)} against grade ${w.gradeId}'s ±${fmtPctLimit(w.flow.tolerance)}${grade.flow[0] === grade.flow[1] ? "" : ` (half its ${fmtPctSide(grade.flow[0], "−")} to ${fmtPctSide(grade.flow[1], "+")} band)`}` : null,
+    w.power ? `in power the reading's ±${pctAsTyped(w.power.accuracy)} against grade ${w.gradeId}'s +${fmtPctLimit(w.power.tolerance)} above the curve's shaft power` : null,
     w.efficiency
-      ? `in efficiency the power reading's ±${fmtPctExact(w.efficiency.accuracy, [w.efficiency.tolerance])} (the pump's efficiency is ρ·g·Q·H over the shaft power, so that reading's accuracy is its own) against grade ${w.gradeId}'s ${effTol(w.efficiency.tolerance)} below the curve's efficiency${w.efficiency.tolerance === 0 ? " (it allows no shortfall, so any accuracy is wider)" : ""}`
+      ? `in efficiency the power reading's ±${pctAsTyped(w.efficiency.accuracy)}, which moves the pump's efficiency by −${fmtPctExact(efficiencyDownward(w.efficiency.accuracy), [], 2)} to +${fmtPctExact(efficiencyUpward(w.efficiency.accuracy), [w.efficiency.tolerance], 2)} (it is ρ·g·Q·H over the shaft power: η/(1 + a) to η/(1 − a)), the upward +a/(1 − a) — the side that would rescue a shortfall — against grade ${w.gradeId}'s ${effTol(w.efficiency.tolerance)} below the curve's efficiency${w.efficiency.tolerance === 0 ? " (it allows no shortfall, so any accuracy is wider)" : ""}`
       : null,
   ].filter((x): x is string => x !== null);
-  // One power reading serves both limits: within the narrower tolerance of those too wide that allow anything at all.
-  const powerTolerances = [w.power?.tolerance, w.efficiency?.tolerance].filter((t): t is number => t !== undefined && t > 0);
+  // One power reading serves both limits: the narrower of the accuracies that would do for those too wide that allow
+  // anything at all — t_P for the power, t_η/(1 + t_η) for the efficiency (a/(1 − a) ≤ t_η).
+  const powerTolerances = [w.power?.tolerance, w.efficiency && w.efficiency.tolerance > 0 ? w.efficiency.tolerance / (1 + w.efficiency.tolerance) : undefined].filter((t): t is number => t !== undefined && t > 0);
   const finer = [
     w.head ? `gauges within about ±${qt("pressure", (w.head.tolerance * density * G0) / Math.SQRT2)} each (equal gauges, for the head within ±${qtLimit("head", w.head.tolerance, [w.head.uncertainty])})` : null,
     w.flow ? `a flow meter within ±${fmtPctLimit(w.flow.tolerance)}` : null,

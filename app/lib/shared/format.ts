@@ -67,3 +67,13 @@ export function fmtUtc(when: string | Date | null | undefined, opts: { seconds?:
   const t = fmtDateTime(when, opts);
   return t === "—" ? t : `${t} UTC`;
 }
+
+/**
+ * A fraction the user typed as a per cent, shown as typed: 0.07 → "7 %", 0.0025 → "0.25 %" (never "7.0 %" nor "0.3 %"). The
+ * ×100 is read back to 15 significant digits, so the binary noise of the form's ÷100 (7/100 × 100 = 7.000000000000001) is
+ * not shown, then `numberAsTyped`. An instrument's accuracy in the field check's words, on its page, in its e-mail.
+ * @param x the fraction (dimensionless)
+ */
+export function pctAsTyped(x: number): string {
+  return `${numberAsTyped(Number((x * 100).toPrecision(15)))} %`;
+}

@@ -1,0 +1,55 @@
+// The engineer's list of a selection's checks (selection-checks.server.ts, SelectionFieldChecks) keeps each stored verdict and,
+// where the check's own readings give another under today's rules (judged-today.ts), says today's beside it; an agreeing row
+// says nothing more. Real records in MariaDB (app/test/harness.ts). Check values: ISO 9906:2012 grade 2B head ±5 % (from
+// memory, TOLERANCE_GRADES); the fixture curve is invented (H = 40 − 1000·Q: 28 m at 12 L/s).
+import { afterAll, beforeAll, expect, test } from "vitest";
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@db/client.server";
+import { fieldChecks } from "@db/schema";
+import { fluidAt } from "~/engine";
+import { viewerOfUser } from "~/lib/projects/test-kit";
+import { getSelection } from "~/lib/projects/selections.server";
+import { parseCheckFields } from "~/lib/fieldchecks";
+import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
+import { SelectionFieldChecks, type SelectionCheckRow } from "~/components/SelectionFieldChecks";
+import { renderDeep, SI_UNITS } from "~/lib/shared/units";
+import { makeMember, type TestMember } from "./harness";
+import { storeSelection, fieldsForHead } from "./fieldcheck-fixture";
+
+afterAll(() => closeDb());
+
+const RHO20 = fluidAt({ kind: "water" }, 20).density;
+let m: TestMember;
+let sel = 0;
+let agreed = 0;
+let drifted = 0;
+
+beforeAll(async () => {
+  m = await makeMember("admin");
+  const v = await viewerOfUser(m.userId);
+  sel = (await storeSelection(m.workspaceId, m.userId, undefined, "List today")).selectionId;
+  const record = async () => {
+    const p = parseCheckFields(fieldsForHead(28 * 1.02, RHO20, { flow: "0.012" }), { kind: "water" }); // head +2 %: within ±5 %
+    if (!p.ok) throw new Error(JSON.stringify(p.errors));
+    return (await recordFieldCheck(v, sel, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  };
+  agreed = await record();
+  drifted = await record();
+  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, drifted)); // as if recorded under an earlier rule
+});
+
+test("stored 'fail', today 'pass': the row keeps fail and says today's; the agreeing row says nothing more", async () => {
+  const v = await viewerOfUser(m.userId);
+  const rows = await checksOfSelection(await getSelection(v, sel));
+  const by = new Map(rows.map((r) => [r.id, r]));
+  const d = by.get(drifted)!;
+  const a = by.get(agreed)!;
+  expect(d.readable && [d.verdict, d.today]).toEqual(["fail", "pass"]); // was: no today
+  expect(a.readable && [a.verdict, a.today]).toEqual(["pass", null]);
+  const html = renderToStaticMarkup(createElement(SelectionFieldChecks, { checks: renderDeep(rows, SI_UNITS) as SelectionCheckRow[], unitSystem: SI_UNITS, selectionId: sel }));
+  expect(html.match(/data-testid="verdict-today"/g)?.length).toBe(1);
+  expect(html).toContain("Today&#x27;s rules give within tolerance on these readings; the verdict recorded is kept (amend to record today&#x27;s).");
+});
