@@ -5,39 +5,28 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { fieldChecks, selections } from "@db/schema";
-import { fluidAt } from "~/engine";
+import { selections } from "@db/schema";
 import { viewerOfUser } from "~/lib/projects/test-kit";
-import { historyCsv, parseCheckFields } from "~/lib/fieldchecks";
-import { checkRecords, recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { historyCsv } from "~/lib/fieldchecks";
+import { checkRecords } from "~/lib/fieldchecks/records.server";
 import { makeMember, type TestMember } from "./harness";
-import { storeSelection, fieldsForHead } from "./fieldcheck-fixture";
+import { recordAtHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
 
-const RHO20 = fluidAt({ kind: "water" }, 20).density;
 let m: TestMember;
 let selA = 0;
 let selB = 0;
 let agreed = 0;
 let drifted = 0;
 
-async function record(selectionId: number, head: number): Promise<number> {
-  const v = await viewerOfUser(m.userId);
-  const p = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.012" }), { kind: "water" });
-  if (!p.ok) throw new Error(JSON.stringify(p.errors));
-  return (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
-}
-
 beforeAll(async () => {
   m = await makeMember("admin");
   selA = (await storeSelection(m.workspaceId, m.userId, undefined, "CSV today A")).selectionId;
-  agreed = await record(selA, 28 * 1.02); // head +2 %: within 2B's ±5 %
-  drifted = await record(selA, 28 * 1.02);
-  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, drifted)); // as if recorded under an earlier rule
+  agreed = await recordAtHead(m.userId, selA, 28 * 1.02); // head +2 %: within 2B's ±5 %
+  drifted = await recordAtHead(m.userId, selA, 28 * 1.02, "fail"); // as if recorded under an earlier rule
   selB = (await storeSelection(m.workspaceId, m.userId, undefined, "CSV today B")).selectionId;
-  const unreadable = await record(selB, 28 * 1.02);
-  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, unreadable));
+  await recordAtHead(m.userId, selB, 28 * 1.02, "fail");
   await db().update(selections).set({ frozenJson: "{" }).where(eq(selections.id, selB));
 });
 

@@ -4,7 +4,12 @@ import { db } from "@db/client.server";
 import { projects, selections, systems } from "@db/schema";
 import { DEFAULT_ADJUSTMENT, defaultSystemInput, evaluateCandidate, type Adjustment, type SystemInput } from "~/lib/projects/hydraulics";
 import type { FrozenSelection } from "~/lib/projects";
-import { historyCsv, type CheckResult, type Readings } from "~/lib/fieldchecks";
+import { eq } from "drizzle-orm";
+import { fieldChecks } from "@db/schema";
+import { fluidAt } from "~/engine";
+import { viewerOfUser } from "~/lib/projects/test-kit";
+import { historyCsv, parseCheckFields, type CheckResult, type Readings } from "~/lib/fieldchecks";
+import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 
 /** Points of H = h0 − k·Q (m, m³/s) from Q = 0 to qMax, with a flat 70 % efficiency hump. */
 export function linearPoints(h0 = 40, k = 1000, qMax = 0.03, n = 7) {
@@ -86,4 +91,17 @@ export function oneCheckCsv(readings: Readings, result: CheckResult): { header: 
   });
   const lines = csv.trim().split("\r\n");
   return { header: lines.at(-2)!.split(","), row: lines.at(-1)!.split(",") };
+}
+
+/**
+ * A check recorded on the fixture's selection by `userId` at 0.012 m³/s and `head` m of water at 20 °C, grade 2B (its id);
+ * `stored` overwrites the verdict stored, as if recorded under an earlier rule (judged-today.ts).
+ */
+export async function recordAtHead(userId: string, selectionId: number, head: number, stored?: "pass" | "fail"): Promise<number> {
+  const v = await viewerOfUser(userId);
+  const p = parseCheckFields(fieldsForHead(head, fluidAt({ kind: "water" }, 20).density, { flow: "0.012" }), { kind: "water" });
+  if (!p.ok) throw new Error(JSON.stringify(p.errors));
+  const id = (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
+  if (stored) await db().update(fieldChecks).set({ verdict: stored }).where(eq(fieldChecks.id, id));
+  return id;
 }

@@ -6,40 +6,26 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { fieldChecks, selections } from "@db/schema";
-import { fluidAt } from "~/engine";
-import { viewerOfUser } from "~/lib/projects/test-kit";
-import { parseCheckFields } from "~/lib/fieldchecks";
-import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { selections } from "@db/schema";
 import * as checkPage from "~/routes/field.checks.$id";
 import { makeMember, type TestMember } from "./harness";
 import { loadedPage } from "./render-page";
-import { fieldsForHead, storeSelection } from "./fieldcheck-fixture";
+import { recordAtHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
 
-const RHO20 = fluidAt({ kind: "water" }, 20).density;
 let m: TestMember;
 let agreed = 0; // stored "pass", today "pass"
 let drifted = 0; // stored "fail" (as if recorded under an earlier rule), today "pass"
 let unreadable = 0; // stored "fail", today "pass", but the selection's frozen document does not read
 
-async function record(selectionId: number, head: number): Promise<number> {
-  const v = await viewerOfUser(m.userId);
-  const p = parseCheckFields(fieldsForHead(head, RHO20, { flow: "0.012" }), { kind: "water" });
-  if (!p.ok) throw new Error(JSON.stringify(p.errors));
-  return (await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
-}
-
 beforeAll(async () => {
   m = await makeMember("admin");
   const a = await storeSelection(m.workspaceId, m.userId, undefined, "Today A");
-  agreed = await record(a.selectionId, 28 * 1.02); // head +2 %: within 2B's ±5 %
-  drifted = await record(a.selectionId, 28 * 1.02);
-  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, drifted));
+  agreed = await recordAtHead(m.userId, a.selectionId, 28 * 1.02); // head +2 %: within 2B's ±5 %
+  drifted = await recordAtHead(m.userId, a.selectionId, 28 * 1.02, "fail");
   const b = await storeSelection(m.workspaceId, m.userId, undefined, "Today B");
-  unreadable = await record(b.selectionId, 28 * 1.02);
-  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, unreadable));
+  unreadable = await recordAtHead(m.userId, b.selectionId, 28 * 1.02, "fail");
   await db().update(selections).set({ frozenJson: "{" }).where(eq(selections.id, b.selectionId));
 });
 

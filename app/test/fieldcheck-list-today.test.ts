@@ -5,23 +5,17 @@
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
-import { eq } from "drizzle-orm";
-import { closeDb, db } from "@db/client.server";
-import { fieldChecks } from "@db/schema";
-import { fluidAt } from "~/engine";
+import { closeDb } from "@db/client.server";
 import { viewerOfUser } from "~/lib/projects/test-kit";
 import { getSelection } from "~/lib/projects/selections.server";
-import { parseCheckFields } from "~/lib/fieldchecks";
-import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks, type SelectionCheckRow } from "~/components/SelectionFieldChecks";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
 import { makeMember, type TestMember } from "./harness";
-import { storeSelection, fieldsForHead } from "./fieldcheck-fixture";
+import { recordAtHead, storeSelection } from "./fieldcheck-fixture";
 
 afterAll(() => closeDb());
 
-const RHO20 = fluidAt({ kind: "water" }, 20).density;
 let m: TestMember;
 let sel = 0;
 let agreed = 0;
@@ -29,16 +23,9 @@ let drifted = 0;
 
 beforeAll(async () => {
   m = await makeMember("admin");
-  const v = await viewerOfUser(m.userId);
   sel = (await storeSelection(m.workspaceId, m.userId, undefined, "List today")).selectionId;
-  const record = async () => {
-    const p = parseCheckFields(fieldsForHead(28 * 1.02, RHO20, { flow: "0.012" }), { kind: "water" }); // head +2 %: within ±5 %
-    if (!p.ok) throw new Error(JSON.stringify(p.errors));
-    return (await recordFieldCheck(v, sel, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: false })).id;
-  };
-  agreed = await record();
-  drifted = await record();
-  await db().update(fieldChecks).set({ verdict: "fail" }).where(eq(fieldChecks.id, drifted)); // as if recorded under an earlier rule
+  agreed = await recordAtHead(m.userId, sel, 28 * 1.02); // head +2 %: within 2B's ±5 %
+  drifted = await recordAtHead(m.userId, sel, 28 * 1.02, "fail"); // as if recorded under an earlier rule
 });
 
 test("stored 'fail', today 'pass': the row keeps fail and says today's; the agreeing row says nothing more", async () => {

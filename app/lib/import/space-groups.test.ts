@@ -2,18 +2,9 @@
 // named at its row and column (the form reader's rule, shared/decimal.ts, decision "inputedge").
 import { describe, expect, it } from "vitest";
 import { analyseCsv } from "./index";
+import { curveAWithCell as withCell } from "./test-helpers"; // invented curve A, every check passed (test-helpers.ts)
 import { parseNumber } from "./numbers";
 
-const H = "model,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
-// Invented curve; power from ρgQH/η (ρ = 998.2 kg/m³, g = 9.80665 m/s²) to within the 3-point consistency rule.
-const ROWS = [
-  "A,2900,190,0,40,0,2.5,1.1",
-  "A,2900,190,10,39.5,39,2.76,1.2",
-  "A,2900,190,20,38.5,60,3.5,1.4",
-  "A,2900,190,30,36.5,69,4.33,1.9",
-  "A,2900,190,40,33.5,70,5.21,2.6",
-];
-const withCell = (row: number, col: number, v: string) => [H, ...ROWS.map((r, k) => (k === row ? r.split(",").map((c, j) => (j === col ? v : c)).join(",") : r))].join("\n");
 
 describe("spaces inside number cells", () => {
   it("thousands groups in threes are read, in dot and comma files (SI Brochure / ISO 80000-1 digit grouping)", () => {

@@ -2,15 +2,8 @@
 // curve it breaks, so that curve is not imported short of a point. Invented curve (P from ρgQH/η, ρ = 998.2 kg/m³).
 import { describe, expect, it } from "vitest";
 import { analyseCsv } from "./index";
+import { FULL_HEADER as H, CURVE_A_ROWS as ROWS } from "./test-helpers";
 
-const H = "model,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
-const ROWS = [
-  "A,2900,190,0,40,0,2.5,1.1",
-  "A,2900,190,10,39.5,39,2.76,1.2",
-  "A,2900,190,20,38.5,60,3.5,1.4",
-  "A,2900,190,30,36.5,69,4.33,1.9",
-  "A,2900,190,40,33.5,70,5.21,2.6",
-];
 const file = (rows: string[]) => [H, ...rows].join("\n");
 const errors = (t: string) => analyseCsv(t).result.problems.filter((p) => p.severity === "error").map((p) => [p.row, p.column, p.code, p.curveKey]);
 

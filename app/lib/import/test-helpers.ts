@@ -30,3 +30,20 @@ export function expectEngineTakes(curveSets: readonly CurveSet[]): void {
     expect(idx.count).toBe(ok.length);
   }
 }
+
+/** Our CSV format's header with every column a point may carry (fixtures/demo/FORMAT.md). */
+export const FULL_HEADER = "model,speed_rpm,impeller_mm,flow_m3h,head_m,efficiency_pct,power_kw,npshr_m";
+/**
+ * One invented curve "A" (2900 rpm, 190 mm) under FULL_HEADER, shut-off to 40 m³/h; power from ρgQH/η (ρ = 998.2 kg/m³,
+ * g = 9.80665 m/s²) within the importer's 3-point consistency rule: a curve every check passes, for tests to break one cell of.
+ */
+export const CURVE_A_ROWS: readonly string[] = [
+  "A,2900,190,0,40,0,2.5,1.1",
+  "A,2900,190,10,39.5,39,2.76,1.2",
+  "A,2900,190,20,38.5,60,3.5,1.4",
+  "A,2900,190,30,36.5,69,4.33,1.9",
+  "A,2900,190,40,33.5,70,5.21,2.6",
+];
+/** FULL_HEADER and CURVE_A_ROWS as a file, with the cell at data row `row` (0-based) and column `col` replaced by `v`. */
+export const curveAWithCell = (row: number, col: number, v: string) =>
+  [FULL_HEADER, ...CURVE_A_ROWS.map((r, k) => (k === row ? r.split(",").map((c, j) => (j === col ? v : c)).join(",") : r))].join("\n");
