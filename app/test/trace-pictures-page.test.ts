@@ -1,5 +1,5 @@
 // The tracer's picture list and its Delete: a picture nothing was traced from can be deleted; one an upload was
-// traced from is kept (it is the source its revisions name) and the page says so; another workspace's picture is a
+// traced from is kept (it is the source its revisions name) and the page says so, 409; another workspace's picture is a
 // 404; an unknown action a 400; a refused import of traced points a 422. Real route module, guards and MariaDB (app/test/harness.ts). Check values: our rules.
 import { existsSync } from "node:fs";
 import path from "node:path";
@@ -43,8 +43,9 @@ describe("the tracer's pictures", () => {
     expect((r.body as { total: number }).total).toBe(2);
   });
 
-  test("one traced from is kept, saying why; one nothing was traced from is deleted", async () => {
+  test("one traced from is kept, saying why (409); one nothing was traced from is deleted", async () => {
     const kept = await post(dist, { intent: "delete", pictureId: String(ids.used) });
+    expect(kept.status).toBe(409); // a conflict with the picture's state, as the search page's refused add (helper "refusals200"; was 200)
     expect(kept.body).toMatchObject({ notice: null, error: "sheet.pdf is kept: 1 upload was traced from it, and it is the source the revisions made from it name." });
     expect(await exists(ids.used)).toBe(true);
     const gone = await post(dist, { intent: "delete", pictureId: String(ids.trial) });
@@ -79,7 +80,7 @@ describe("the trace page's refused import", () => {
   });
 });
 
-describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, the trace page's refused import", () => {
+describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, the trace pages' refusals", () => {
   let app: BuiltApp | null = null;
   beforeAll(async () => {
     app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
@@ -96,5 +97,18 @@ describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the w
     expect([res.status, res.headers.get("content-type")]).toEqual([422, "text/html; charset=utf-8"]);
     expect(html).toContain('role="alert">Nothing was traced yet.</p>'); // source: our rule (storeTracedCsv's words, in FormError)
     expect(html).toContain("Trace: sheet.pdf"); // the page itself, not an error page
+  }, 60_000);
+  test("a Delete of a picture traced from, posted as a browser posts it: 409, the picture list with the reason", async () => {
+    const res = await fetch(`${app!.base}/libraries/${lib}/trace`, {
+      method: "POST",
+      headers: { cookie: dist.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ intent: "delete", pictureId: String(ids.used) }),
+      redirect: "manual",
+    });
+    const html = plainHtml(await res.text());
+    expect([res.status, res.headers.get("content-type")]).toEqual([409, "text/html; charset=utf-8"]);
+    expect(html).toContain('role="alert">sheet.pdf is kept: 1 upload was traced from it'); // source: our rule (deletePicture's words, in FormError)
+    expect(html).toContain("Pictures of this library"); // the page itself, not an error page
+    expect(await exists(ids.used)).toBe(true);
   }, 60_000);
 });
