@@ -1,5 +1,5 @@
 import * as v from "valibot";
-import { redirect } from "react-router";
+import { data, redirect } from "react-router";
 import type { Route } from "./+types/libraries.$id.trace.$pictureId";
 import { requireMember } from "~/lib/auth/guards.server";
 import { viewerOf } from "~/lib/auth/viewer.server";
@@ -45,7 +45,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const uploadId = await storeTracedCsv(viewerOf(m), libraryId, pictureId, r.value.csv, r.value.page ?? null, r.value.note);
     throw redirect(`/libraries/${libraryId}/uploads/${uploadId}`);
   } catch (e) {
-    if (e instanceof UploadRejected) return { error: e.message };
+    if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 }); // as the upload routes (was 200)
     throw e;
   }
 }

@@ -28,7 +28,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = await readFormSafe(request);
   if (form.get("intent") !== "delete") throw data("Unknown action: this page only deletes a picture.", { status: 400 });
   const r = await deletePicture(viewerOf(m), readId(params.id), formId(form, "pictureId"));
-  return r.deleted ? { notice: `${r.filename} deleted.`, error: undefined } : { notice: null, error: r.reason };
+  if (!r.deleted) return data({ notice: null, error: r.reason }, { status: 409 }); // conflicts with the uploads traced from it (RFC 9110 §15.5.10; was 200)
+  return { notice: `${r.filename} deleted.`, error: undefined };
 }
 
 export default function TraceStart({ loaderData: d, actionData: a }: Route.ComponentProps) {

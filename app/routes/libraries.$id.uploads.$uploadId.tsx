@@ -58,13 +58,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
+/** A fix or min-flow save that would change nothing: refused (422, as the fix the file cannot take; was 200), the page kept. */
+const nothingSaved = (what: "cell" | "figure") => data({ error: `No ${what} was changed; nothing was saved.` }, { status: 422 });
+
 export async function action({ request, params }: Route.ActionArgs) {
   const c = await context(request, params);
   const form = await readFormSafe(request);
   if (form.get("intent") === "fix") {
     try {
       const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, editsFromForm(form), encodingFromForm(form));
-      if (id === null) return { error: "No cell was changed; nothing was saved." };
+      if (id === null) return nothingSaved("cell");
       throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}`);
     } catch (e) {
       if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 });
@@ -101,10 +104,10 @@ async function saveMinFlows(c: Awaited<ReturnType<typeof context>>, form: FormDa
   const r = readMinFlowForm(form, s.minFlows, c.m.user.units, { headerLine: s.sniff.headerLine, width: s.headers.length, decimalComma: s.sniff.decimalComma });
   if (!r.ok && r.status === 404) throw data(r.error, { status: 404 });
   if (!r.ok) return data({ error: r.error }, { status: r.status });
-  if (r.changed === 0) return { error: "No figure was changed; nothing was saved." };
+  if (r.changed === 0) return nothingSaved("figure");
   try {
     const id = await saveCorrectedUpload(c.viewer, c.libraryId, c.uploadId, r.edits, encodingFromForm(form), r.extraColumns);
-    if (id === null) return { error: "No figure was changed; nothing was saved." };
+    if (id === null) return nothingSaved("figure");
     throw redirect(`/libraries/${c.libraryId}/uploads/${id}?from=${c.uploadId}${s.minFlows.page > 1 ? `&minflows=${s.minFlows.page}` : ""}`);
   } catch (e) {
     if (e instanceof UploadRejected) return data({ error: e.message }, { status: 422 });

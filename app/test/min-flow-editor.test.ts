@@ -3,6 +3,8 @@
 // in the reader's unit — which reads back and imports as the curve set's `min_flow`; the field attacked with NaN, Infinity,
 // negative, 0, 1e400, a 10 kB string, a figure at or past the curve's last flow (400, nothing stored) and curve numbers the
 // list does not hold (404, not 500). Real route module, guards, analysis worker and MariaDB. Invented pumps.
+import { existsSync } from "node:fs";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -12,7 +14,8 @@ import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
-import { call, makeMember, type TestMember } from "./harness";
+import { call, makeMember, ROOT, startBuiltApp, type BuiltApp, type TestMember } from "./harness";
+import { plainHtml } from "./render-page";
 
 afterAll(async () => {
   await stopAnalysisWorker();
@@ -133,12 +136,12 @@ describe("the field attacked: refused with the field's words, never a 500, nothi
     expect(await uploadCount()).toBe(n);
   });
 
-  test("just below the last flow is taken; an unchanged figure saves nothing", async () => {
+  test("just below the last flow is taken; an unchanged figure saves nothing (422)", async () => {
     const r = await post({ "minflow.1": String(40 * (1 - 1e-6)) });
     expect(r.status).toBe(302);
     const again = await post({ "minflow.1": "", "minflow.2": "" });
-    expect(again.status).toBe(200);
-    expect((again.body as { error?: string }).error).toBe("No figure was changed; nothing was saved.");
+    expect(again.status).toBe(422); // a refusal, as the route's other refused saves (helper "refusals200"; it answered 200)
+    expect((again.body as { error?: string }).error).toBe("No figure was changed; nothing was saved."); // source: our rule (the route's words)
   });
 
   test("another workspace's member cannot reach it (404 before any field is read)", async () => {
@@ -146,4 +149,36 @@ describe("the field attacked: refused with the field's words, never a 500, nothi
     const r = await call(uploadPage.action as never, { path: `/libraries/${lib}/uploads/${upload}`, cookie: stranger.cookie, params: params(), form: { intent: "min-flow", "minflow.1": "12" } });
     expect(r.status).toBe(404);
   });
+});
+
+// A save that changes nothing, posted as a browser without JavaScript posts it (helper "refusals200"; both answered 200):
+// 422, and the mapping page itself again with the refusal's words and its forms.
+describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, without JavaScript: a save that changes nothing", () => {
+  let app: BuiltApp | null = null;
+  beforeAll(async () => {
+    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
+  }, 60_000);
+  afterAll(() => app?.stop());
+  const postAsBrowser = (form: Record<string, string>) =>
+    fetch(`${app!.base}/libraries/${lib}/uploads/${upload}`, {
+      method: "POST",
+      headers: { cookie: m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams(form),
+      redirect: "manual",
+    });
+
+  test.each([
+    ["a fix whose cell is the file's own (MF-1)", { intent: "fix", encoding: "utf-8", "cell.2.0": "MF-1" }, "No cell was changed; nothing was saved."],
+    ["a min-flow save with every figure left blank", { "minflow.1": "", "minflow.2": "" }, "No figure was changed; nothing was saved."],
+  ] as [string, Record<string, string>, string][])("%s: 422, the page with the refusal", async (_, fields, words) => {
+    const n = await uploadCount();
+    const form = fields.intent ? fields : { intent: "min-flow", base: JSON.stringify((await page()).mapping), encoding: "utf-8", ...fields };
+    const res = await postAsBrowser(form);
+    const html = plainHtml(await res.text());
+    expect([res.status, res.headers.get("content-type")]).toEqual([422, "text/html; charset=utf-8"]);
+    expect(html).toContain(`role="alert">${words}</p>`); // source: our rule (the route's words, in FormError)
+    expect(html).toContain("Map and check: pumps.csv"); // the page itself, not an error page
+    expect(html).toMatch(/<form[^>]*method="post"/);
+    expect(await uploadCount()).toBe(n);
+  }, 60_000);
 });

@@ -1,16 +1,20 @@
 // The tracer's picture list and its Delete: a picture nothing was traced from can be deleted; one an upload was
-// traced from is kept (it is the source its revisions name) and the page says so; another workspace's picture is a
-// 404; an unknown action a 400. Real route module, guards and MariaDB (app/test/harness.ts). Check values: our rules.
+// traced from is kept (it is the source its revisions name) and the page says so, 409; another workspace's picture is a
+// 404; an unknown action a 400; a refused import of traced points a 422. Real route module, guards and MariaDB (app/test/harness.ts). Check values: our rules.
+import { existsSync } from "node:fs";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { tracePictures } from "@db/schema";
+import { tracePictures, uploads } from "@db/schema";
 import { createLibrary, type Viewer } from "~/lib/libraries";
 import { viewerOfUser } from "~/lib/projects/test-kit";
 import { storePicture, storeTracedCsv } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
 import * as tracePage from "~/routes/libraries.$id.trace";
-import { call, makeMember, type TestMember } from "./harness";
+import * as tracePicturePage from "~/routes/libraries.$id.trace.$pictureId";
+import { call, makeMember, ROOT, startBuiltApp, type BuiltApp, type TestMember } from "./harness";
+import { plainHtml } from "./render-page";
 
 afterAll(() => closeDb());
 
@@ -39,8 +43,9 @@ describe("the tracer's pictures", () => {
     expect((r.body as { total: number }).total).toBe(2);
   });
 
-  test("one traced from is kept, saying why; one nothing was traced from is deleted", async () => {
+  test("one traced from is kept, saying why (409); one nothing was traced from is deleted", async () => {
     const kept = await post(dist, { intent: "delete", pictureId: String(ids.used) });
+    expect(kept.status).toBe(409); // a conflict with the picture's state, as the search page's refused add (helper "refusals200"; was 200)
     expect(kept.body).toMatchObject({ notice: null, error: "sheet.pdf is kept: 1 upload was traced from it, and it is the source the revisions made from it name." });
     expect(await exists(ids.used)).toBe(true);
     const gone = await post(dist, { intent: "delete", pictureId: String(ids.trial) });
@@ -58,4 +63,52 @@ describe("the tracer's pictures", () => {
     expect((await post(dist, { intent: "delete", pictureId: "999999999" })).status).toBe(404);
     expect(await exists(extra)).toBe(true);
   });
+});
+
+// The trace page's import (POST /libraries/:id/trace/:pictureId intent=import) refusing the traced points: 422, as the
+// upload routes answer an UploadRejected (helper "refusals200"; it answered 200), with the refusal's words for the page.
+describe("the trace page's refused import", () => {
+  test("traced points of only blanks: 422 \"Nothing was traced yet.\", no upload stored", async () => {
+    const uploadsOf = async () => (await db().select({ id: uploads.id }).from(uploads).where(eq(uploads.libraryId, lib))).length;
+    const n = await uploadsOf();
+    const r = await call(tracePicturePage.action as never, {
+      path: `/libraries/${lib}/trace/${ids.used}`, cookie: dist.cookie, params: { id: String(lib), pictureId: String(ids.used) },
+      form: { intent: "import", csv: " \n  \n", page: "1" },
+    });
+    expect([r.status, (r.body as { error?: string }).error]).toEqual([422, "Nothing was traced yet."]); // source: our rule (storeTracedCsv's words)
+    expect(await uploadsOf()).toBe(n);
+  });
+});
+
+describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, the trace pages' refusals", () => {
+  let app: BuiltApp | null = null;
+  beforeAll(async () => {
+    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
+  }, 60_000);
+  afterAll(() => app?.stop());
+  test("posted as a browser posts it: 422, the trace page itself with the refusal", async () => {
+    const res = await fetch(`${app!.base}/libraries/${lib}/trace/${ids.used}`, {
+      method: "POST",
+      headers: { cookie: dist.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ intent: "import", csv: " \n  \n", page: "1" }),
+      redirect: "manual",
+    });
+    const html = plainHtml(await res.text());
+    expect([res.status, res.headers.get("content-type")]).toEqual([422, "text/html; charset=utf-8"]);
+    expect(html).toContain('role="alert">Nothing was traced yet.</p>'); // source: our rule (storeTracedCsv's words, in FormError)
+    expect(html).toContain("Trace: sheet.pdf"); // the page itself, not an error page
+  }, 60_000);
+  test("a Delete of a picture traced from, posted as a browser posts it: 409, the picture list with the reason", async () => {
+    const res = await fetch(`${app!.base}/libraries/${lib}/trace`, {
+      method: "POST",
+      headers: { cookie: dist.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ intent: "delete", pictureId: String(ids.used) }),
+      redirect: "manual",
+    });
+    const html = plainHtml(await res.text());
+    expect([res.status, res.headers.get("content-type")]).toEqual([409, "text/html; charset=utf-8"]);
+    expect(html).toContain('role="alert">sheet.pdf is kept: 1 upload was traced from it'); // source: our rule (deletePicture's words, in FormError)
+    expect(html).toContain("Pictures of this library"); // the page itself, not an error page
+    expect(await exists(ids.used)).toBe(true);
+  }, 60_000);
 });

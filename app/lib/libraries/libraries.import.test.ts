@@ -137,12 +137,13 @@ describe("fix in the browser (a plain form post, no JavaScript)", () => {
     const again = await call(uploadPage.loader as unknown as Fn, { path: `/libraries/${libId}/uploads/${newId}?from=${uploadId}`, params: { id: String(libId), uploadId: String(newId) }, cookie: d.cookie });
     expect((again.body as { stats: { errors: number; curveSetsOk: number } }).stats).toMatchObject({ errors: 0, curveSetsOk: 1 }); // checked again on the server
   });
-  test("posting unchanged cells saves nothing; a cell outside the file is refused", async () => {
+  test("posting unchanged cells saves nothing (422); a cell outside the file is refused", async () => {
     const { libId, uploadId } = await stored("blank-speed.csv");
     const path = `/libraries/${libId}/uploads/${uploadId}`;
     const params = { id: String(libId), uploadId: String(uploadId) };
     const same = await call(uploadPage.action as unknown as Fn, { path, params, cookie: d.cookie, form: { intent: "fix", "cell.4.0": "Ashgrove AG-32" } });
-    expect((same.body as { error: string }).error).toContain("No cell was changed");
+    // a refusal, not a success: 422 as the route's other refused fixes (helper "refusals200"; it answered 200)
+    expect([same.status, (same.body as { error: string }).error]).toEqual([422, "No cell was changed; nothing was saved."]); // source: our rule (the route's words)
     const out = await call(uploadPage.action as unknown as Fn, { path, params, cookie: d.cookie, form: { intent: "fix", "cell.99.0": "x" } });
     expect((out.body as { error: string }).error).toContain("line 99 is not in the file");
     expect((await db().select().from(uploads).where(eq(uploads.libraryId, libId))).length).toBe(1);
