@@ -18,19 +18,6 @@ async function newSystem(page: Page, label: string) {
   return { project, projectPath, systemPath: new URL(page.url()).pathname };
 }
 
-test("A save refused without JavaScript (the form posted natively): the page shows the typed values and counts them unsaved (helper \"formedges\")", async ({ page }) => {
-  await signIn(page, "engineer@kestrel.example");
-  await newSystem(page, "Refused typed");
-  const editor = page.locator('form[aria-label="System inputs"]');
-  await expect(editor).toHaveAttribute("data-unsaved", "no");
-  await page.getByLabel("Flow").first().fill("-5"); // refused: a negative duty flow
-  // Sent as a browser without scripts sends it (HTMLFormElement.submit: no submit event, so no fetch by React Router).
-  await Promise.all([page.waitForEvent("load"), page.evaluate(() => HTMLFormElement.prototype.submit.call(document.querySelector('form[aria-label="System inputs"]')))]);
-  await expect(page.getByLabel("Flow").first()).toHaveValue("-5");
-  // The typed values are not stored: unsaved once the page comes to life (it took them as its baseline: "no").
-  await expect(editor).toHaveAttribute("data-unsaved", "yes");
-});
-
 test("Unsaved changes on the system editor: leaving by a link asks, staying keeps the edit, saving lets me leave without a question", async ({ page }) => {
   await signIn(page, "engineer@kestrel.example");
   const { project, projectPath, systemPath } = await newSystem(page, "Unsaved changes");

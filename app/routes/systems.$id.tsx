@@ -130,8 +130,7 @@ export default function SystemPage() {
     setDraft(null);
     setTyped(false);
   }, [d]);
-  // Served as the answer to a refused save (without JavaScript): the typed values shown are not stored, so unsaved at once.
-  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null, Boolean(a?.typed));
+  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
   const onInput = () => {
     unsaved.check();
     if (timer.current) clearTimeout(timer.current);

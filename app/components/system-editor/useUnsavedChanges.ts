@@ -27,27 +27,19 @@ function snapshot(form: HTMLFormElement | null, loaded = false): string {
   return JSON.stringify(out);
 }
 
-/** The baseline of a form served with a refused save's typed values: no snapshot equals it, so the form is unsaved until a save goes through. */
-const NOT_SAVED = "not saved: the values of a refused save";
-
 /**
  * `loadedKey` changes when another system is loaded; `savedKey` is a new non-null value after each
- * successful save. `servedUnsaved`: the page was served with a refused save's typed values in its fields (the answer to
- * a post sent without JavaScript, typed-back.ts): what it was served with is not what is stored, so it is unsaved from
- * the start (the served values were taken as the baseline, and leaving lost them without a question). Call `check()` on
- * every input of the form. `watching` is false until the page runs its scripts (the editor marks its form with it, so
- * tests know when a change is noticed).
+ * successful save. Call `check()` on every input of the form. `watching` is false until the page runs
+ * its scripts (the editor marks its form with it, so tests know when a change is noticed).
  */
-export function useUnsavedChanges(formRef: RefObject<HTMLFormElement | null>, loadedKey: unknown, savedKey: unknown, servedUnsaved = false) {
+export function useUnsavedChanges(formRef: RefObject<HTMLFormElement | null>, loadedKey: unknown, savedKey: unknown) {
   const baseline = useRef<string | null>(null);
-  const servedUnsavedRef = useRef(servedUnsaved); // as the page was served (read once, when it comes to life)
   const [dirty, setDirty] = useState(false);
   const [watching, setWatching] = useState(false);
   // As loaded: the served values. After a save: the form as it stands (its values are now the stored ones,
   // though the server may write them back formatted differently).
   useEffect(() => {
-    baseline.current = servedUnsavedRef.current ? NOT_SAVED : snapshot(formRef.current, true);
-    servedUnsavedRef.current = false; // another system loaded later is served from the store
+    baseline.current = snapshot(formRef.current, true);
     setDirty(snapshot(formRef.current) !== baseline.current);
     setWatching(true);
   }, [formRef, loadedKey]);
