@@ -18,6 +18,27 @@ async function newSystem(page: Page, label: string) {
   return { project, projectPath, systemPath: new URL(page.url()).pathname };
 }
 
+test("A save refused without JavaScript (the form posted natively): the page shows the typed values, counts them unsaved and asks before leaving (helpers \"formedges\", \"nojsbaseline\")", async ({ page }) => {
+  await signIn(page, "engineer@kestrel.example");
+  const { project, systemPath } = await newSystem(page, "Refused typed");
+  const editor = page.locator('form[aria-label="System inputs"]');
+  await expect(editor).toHaveAttribute("data-unsaved", "no");
+  await page.getByLabel("Flow").first().fill("-5"); // refused: a negative duty flow (common practice: a duty flow is > 0)
+  // Sent as a browser without scripts sends it (HTMLFormElement.submit: no submit event, so no fetch by React Router).
+  await Promise.all([page.waitForEvent("load"), page.evaluate(() => HTMLFormElement.prototype.submit.call(document.querySelector('form[aria-label="System inputs"]')))]);
+  await expect(page.getByLabel("Flow").first()).toHaveValue("-5");
+  // The typed values are not stored: unsaved once the page comes to life. npm test's browser tests run React's development
+  // build, whose StrictMode runs the effect that takes the baseline twice on mount; both runs must say "yes".
+  await expect(editor).toHaveAttribute("data-unsaved", "yes");
+  // Leaving by a link asks; staying keeps the typed value.
+  await page.getByRole("link", { name: project }).click();
+  const question = page.getByRole("alertdialog", { name: "Leave without saving?" });
+  await expect(question).toBeVisible();
+  await question.getByRole("button", { name: "Stay and keep editing" }).click();
+  await expect(page).toHaveURL(new RegExp(`${systemPath}$`));
+  await expect(page.getByLabel("Flow").first()).toHaveValue("-5");
+});
+
 test("Unsaved changes on the system editor: leaving by a link asks, staying keeps the edit, saving lets me leave without a question", async ({ page }) => {
   await signIn(page, "engineer@kestrel.example");
   const { project, projectPath, systemPath } = await newSystem(page, "Unsaved changes");

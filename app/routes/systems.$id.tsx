@@ -130,7 +130,8 @@ export default function SystemPage() {
     setDraft(null);
     setTyped(false);
   }, [d]);
-  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null);
+  // A refused save (posted without JavaScript, or with it) leaves its typed values in the form: not stored, so unsaved.
+  const unsaved = useUnsavedChanges(formRef, d.id, a?.saved ? a : null, Boolean(a?.typed));
   const onInput = () => {
     unsaved.check();
     if (timer.current) clearTimeout(timer.current);

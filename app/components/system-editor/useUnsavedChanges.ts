@@ -27,22 +27,30 @@ function snapshot(form: HTMLFormElement | null, loaded = false): string {
   return JSON.stringify(out);
 }
 
+/** The baseline of a form that holds a refused save's typed values: no snapshot equals it, so the form is unsaved until a save goes through. */
+const NOT_SAVED = "not saved: the values of a refused save";
+
 /**
  * `loadedKey` changes when another system is loaded; `savedKey` is a new non-null value after each
- * successful save. Call `check()` on every input of the form. `watching` is false until the page runs
- * its scripts (the editor marks its form with it, so tests know when a change is noticed).
+ * successful save. `servedUnsaved`: the form holds a refused save's typed values (the page was served with them as the
+ * answer to a post sent without JavaScript, typed-back.ts, or a refused save came back to it): they are not what is
+ * stored, so the form is unsaved until a save goes through. Call `check()` on every input of the form. `watching` is
+ * false until the page runs its scripts (the editor marks its form with it, so tests know when a change is noticed).
  */
-export function useUnsavedChanges(formRef: RefObject<HTMLFormElement | null>, loadedKey: unknown, savedKey: unknown) {
+export function useUnsavedChanges(formRef: RefObject<HTMLFormElement | null>, loadedKey: unknown, savedKey: unknown, servedUnsaved = false) {
   const baseline = useRef<string | null>(null);
   const [dirty, setDirty] = useState(false);
   const [watching, setWatching] = useState(false);
-  // As loaded: the served values. After a save: the form as it stands (its values are now the stored ones,
-  // though the server may write them back formatted differently).
+  // As loaded: the served values (none, when they are a refused save's). After a save: the form as it stands (its values
+  // are now the stored ones, though the server may write them back formatted differently). This effect reads its inputs
+  // and keeps nothing of an earlier run: React's StrictMode runs it twice on mount in a development build (npm test's
+  // browser tests run one, db/cli.mjs building under NODE_ENV=test), and a flag consumed by the first run made the
+  // second take the typed values as the baseline (decision "nojsbaseline").
   useEffect(() => {
-    baseline.current = snapshot(formRef.current, true);
+    baseline.current = servedUnsaved ? NOT_SAVED : snapshot(formRef.current, true);
     setDirty(snapshot(formRef.current) !== baseline.current);
     setWatching(true);
-  }, [formRef, loadedKey]);
+  }, [formRef, loadedKey, servedUnsaved]);
   useEffect(() => {
     if (savedKey == null) return;
     baseline.current = snapshot(formRef.current);
