@@ -3,8 +3,6 @@
 // in the reader's unit — which reads back and imports as the curve set's `min_flow`; the field attacked with NaN, Infinity,
 // negative, 0, 1e400, a 10 kB string, a figure at or past the curve's last flow (400, nothing stored) and curve numbers the
 // list does not hold (404, not 500). Real route module, guards, analysis worker and MariaDB. Invented pumps.
-import { existsSync } from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -14,7 +12,8 @@ import { stopAnalysisWorker } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
 import { importCsvText, viewerOfUser } from "~/lib/projects/test-kit";
 import * as uploadPage from "~/routes/libraries.$id.uploads.$uploadId";
-import { call, makeMember, ROOT, startBuiltApp, type BuiltApp, type TestMember } from "./harness";
+import { call, makeMember, type TestMember } from "./harness";
+import { describeOnTheWire } from "./on-the-wire";
 import { plainHtml } from "./render-page";
 
 afterAll(async () => {
@@ -153,19 +152,8 @@ describe("the field attacked: refused with the field's words, never a 500, nothi
 
 // A save that changes nothing, posted as a browser without JavaScript posts it (helper "refusals200"; both answered 200):
 // 422, and the mapping page itself again with the refusal's words and its forms.
-describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, without JavaScript: a save that changes nothing", () => {
-  let app: BuiltApp | null = null;
-  beforeAll(async () => {
-    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
-  }, 60_000);
-  afterAll(() => app?.stop());
-  const postAsBrowser = (form: Record<string, string>) =>
-    fetch(`${app!.base}/libraries/${lib}/uploads/${upload}`, {
-      method: "POST",
-      headers: { cookie: m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams(form),
-      redirect: "manual",
-    });
+describeOnTheWire("on the wire, without JavaScript: a save that changes nothing", (wire) => {
+  const postAsBrowser = (form: Record<string, string>) => wire.postAsBrowser(`/libraries/${lib}/uploads/${upload}`, m.cookie, form);
 
   test.each([
     ["a fix whose cell is the file's own (MF-1)", { intent: "fix", encoding: "utf-8", "cell.2.0": "MF-1" }, "No cell was changed; nothing was saved."],

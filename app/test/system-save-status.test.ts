@@ -2,15 +2,14 @@
 // field errors (DEVELOPERS.md "Add a route"; it answered 200 until the "wirereq" helper), with the errors for the page and
 // nothing saved; and on the wire to the built app, posted as a browser without JavaScript posts it, the editor page
 // itself with the message beside the field. A good save stays 200.
-import { existsSync } from "node:fs";
-import path from "node:path";
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { afterAll, beforeAll, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
 import { candidates, systems } from "@db/schema";
 import { defaultSystemInput } from "~/lib/projects/hydraulics";
 import * as systemPage from "~/routes/systems.$id";
-import { call, makeMember, ROOT, startBuiltApp, type BuiltApp } from "./harness";
+import { call, makeMember } from "./harness";
+import { describeOnTheWire } from "./on-the-wire";
 import { walkRecords, type WalkRecords } from "./route-table";
 import { editorPost } from "./editor-post";
 import { plainHtml } from "./render-page";
@@ -62,21 +61,9 @@ test("a refused adjustment (a ratio of letters, 0 duty pumps) or purchase price 
   expect((await post(adjustForm({ ratio: "95" }))).status).toBe(200);
 });
 
-const built = existsSync(path.join(ROOT, "build/server/index.js"));
-describe.skipIf(!built)("on the wire, without JavaScript", () => {
-  let app: BuiltApp | null = null;
-  beforeAll(async () => {
-    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
-  }, 60_000);
-  afterAll(() => app?.stop());
+describeOnTheWire("on the wire, without JavaScript", (wire) => {
   /** The editor's form posted as a browser without JavaScript posts it (a signed-in owner, same origin). */
-  const postAsBrowser = (form: Record<string, string>) =>
-    fetch(`${app!.base}/systems/${owner.system}`, {
-      method: "POST",
-      headers: { cookie: owner.m.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams(form),
-      redirect: "manual",
-    });
+  const postAsBrowser = (form: Record<string, string>) => wire.postAsBrowser(`/systems/${owner.system}`, owner.m.cookie, form);
 
   test("a form post with a negative duty flow: 400, the editor page again (its form, the field marked and its message beside it)", async () => {
     const form = { ...editorPost(defaultSystemInput(), "Save status"), dutyFlow: "-5" };
@@ -102,7 +89,7 @@ describe.skipIf(!built)("on the wire, without JavaScript", () => {
     expect(html).toMatch(/<input id="f-name"[^>]*value="Typed back"/);
     expect(html).toMatch(/<input type="checkbox" name="run\.0\.remove" checked=""/);
     // The page loaded afresh (no action) shows the stored values again: nothing of the refused post was kept.
-    const again = plainHtml(await (await fetch(`${app!.base}/systems/${owner.system}`, { headers: { cookie: owner.m.cookie } })).text());
+    const again = plainHtml(await (await wire.get(`/systems/${owner.system}`, owner.m.cookie)).text());
     expect(again).toMatch(new RegExp(`<input id="f-dutyFlow"[^>]*value="${good.dutyFlow}"`));
     expect(again).not.toMatch(/<input id="f-run\.1\.length"[^>]*value="75"/);
   }, 60_000);

@@ -1,8 +1,6 @@
 // The tracer's picture list and its Delete: a picture nothing was traced from can be deleted; one an upload was
 // traced from is kept (it is the source its revisions name) and the page says so, 409; another workspace's picture is a
 // 404; an unknown action a 400; a refused import of traced points a 422. Real route module, guards and MariaDB (app/test/harness.ts). Check values: our rules.
-import { existsSync } from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
@@ -13,7 +11,8 @@ import { storePicture, storeTracedCsv } from "~/lib/tracer/pictures.server";
 import { chartPdf } from "~/lib/tracer/test-chart";
 import * as tracePage from "~/routes/libraries.$id.trace";
 import * as tracePicturePage from "~/routes/libraries.$id.trace.$pictureId";
-import { call, makeMember, ROOT, startBuiltApp, type BuiltApp, type TestMember } from "./harness";
+import { call, makeMember, type TestMember } from "./harness";
+import { describeOnTheWire } from "./on-the-wire";
 import { plainHtml } from "./render-page";
 
 afterAll(() => closeDb());
@@ -80,31 +79,16 @@ describe("the trace page's refused import", () => {
   });
 });
 
-describe.skipIf(!existsSync(path.join(ROOT, "build/server/index.js")))("on the wire, the trace pages' refusals", () => {
-  let app: BuiltApp | null = null;
-  beforeAll(async () => {
-    app = await startBuiltApp({ COOKIE_SECURE: "0", STRIPE_API_BASE: "" });
-  }, 60_000);
-  afterAll(() => app?.stop());
+describeOnTheWire("on the wire, the trace pages' refusals", (wire) => {
   test("posted as a browser posts it: 422, the trace page itself with the refusal", async () => {
-    const res = await fetch(`${app!.base}/libraries/${lib}/trace/${ids.used}`, {
-      method: "POST",
-      headers: { cookie: dist.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams({ intent: "import", csv: " \n  \n", page: "1" }),
-      redirect: "manual",
-    });
+    const res = await wire.postAsBrowser(`/libraries/${lib}/trace/${ids.used}`, dist.cookie, { intent: "import", csv: " \n  \n", page: "1" });
     const html = plainHtml(await res.text());
     expect([res.status, res.headers.get("content-type")]).toEqual([422, "text/html; charset=utf-8"]);
     expect(html).toContain('role="alert">Nothing was traced yet.</p>'); // source: our rule (storeTracedCsv's words, in FormError)
     expect(html).toContain("Trace: sheet.pdf"); // the page itself, not an error page
   }, 60_000);
   test("a Delete of a picture traced from, posted as a browser posts it: 409, the picture list with the reason", async () => {
-    const res = await fetch(`${app!.base}/libraries/${lib}/trace`, {
-      method: "POST",
-      headers: { cookie: dist.cookie, origin: app!.base, "content-type": "application/x-www-form-urlencoded" },
-      body: new URLSearchParams({ intent: "delete", pictureId: String(ids.used) }),
-      redirect: "manual",
-    });
+    const res = await wire.postAsBrowser(`/libraries/${lib}/trace`, dist.cookie, { intent: "delete", pictureId: String(ids.used) });
     const html = plainHtml(await res.text());
     expect([res.status, res.headers.get("content-type")]).toEqual([409, "text/html; charset=utf-8"]);
     expect(html).toContain('role="alert">sheet.pdf is kept: 1 upload was traced from it'); // source: our rule (deletePicture's words, in FormError)
