@@ -11,8 +11,13 @@
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@db/client.server";
-import { users, workspaces } from "@db/schema";
-import { selectCandidate, systemWorkbench } from "~/lib/projects";
+import { outbox, users, workspaces } from "@db/schema";
+import { getSelection, selectCandidate, systemWorkbench } from "~/lib/projects";
+import { parseCheckFields, VERDICT_TEXT } from "~/lib/fieldchecks";
+import { recordFieldCheck } from "~/lib/fieldchecks/records.server";
+import { fluidAt } from "~/engine";
+import type { Viewer } from "~/lib/libraries";
+import { fieldsForHead } from "./fieldcheck-fixture";
 import { demoLibrary, viewerOfUser } from "~/lib/projects/test-kit";
 import { seedDemoProject } from "~/cli/seed";
 import { demoSystems } from "~/cli/demo-systems";
@@ -24,7 +29,24 @@ import { candidateColumns, noSiWords, BAD_WORDS, titlesOf, verdictProblems } fro
 
 afterAll(() => closeDb());
 
-type Walked = { where: string; us: boolean; pages: SelectionPages; systemColumn: Map<string, string>; reportColumn: Map<string, string> };
+type Walked = { where: string; us: boolean; pages: SelectionPages; systemColumn: Map<string, string>; reportColumn: Map<string, string>; mail: string };
+
+/**
+ * A field check recorded on the selection by its engineer, with the e-mail the engineer gets (in the engineer's units): the
+ * pump read 4 % under the operating flow at 2 % under its head (invented readings, as the demo check of seed-fieldchecks.ts),
+ * water at the system's temperature, the speed the selection runs at; the mail's text.
+ */
+async function checkWithMail(v: Viewer, email: string, selectionId: number): Promise<string> {
+  const f = (await getSelection(v, selectionId)).frozen;
+  const op = f.result.operating!;
+  const rpm = Math.round(f.pump.speed! * (f.adjustment.method === "speed" ? f.result.ratio ?? 1 : 1));
+  const rho = fluidAt({ kind: "water" }, f.system.input.temperatureC).density;
+  const p = parseCheckFields(fieldsForHead(op.head * 0.98, rho, { flow: String(op.flow * 0.96), rpm: String(rpm), temperature: String(f.system.input.temperatureC) }), { kind: "water" });
+  if (!p.ok) throw new Error(JSON.stringify(p.errors));
+  await recordFieldCheck(v, selectionId, { readings: p.readings, fields: p.fields, notes: "", gradeId: "2B" }, [], { notify: true });
+  const mails = await db().select().from(outbox).where(eq(outbox.toAddress, email));
+  return mails.at(-1)!.textBody;
+}
 const walked: Walked[] = [];
 
 beforeAll(async () => {
@@ -33,6 +55,7 @@ beforeAll(async () => {
   const us = await makeMember("admin", m.workspaceId);
   await db().update(users).set({ unitSystem: "US" }).where(eq(users.id, us.userId));
   const v = await viewerOfUser(m.userId);
+  const vUs = await viewerOfUser(us.userId);
   for (const f of ["harrow-vell.csv", "nordquay.csv", "tallowmere.csv"]) await demoLibrary(v, f, f);
   for (const d of demoSystems()) {
     const { systemId, candidateIds } = await seedDemoProject(v, d);
@@ -40,11 +63,13 @@ beforeAll(async () => {
     const systemPages = new Map<TestMember, string>();
     for (const who of [m, us]) systemPages.set(who, (await loadedPage(who, sysPage, "/systems/:id", `/systems/${systemId}`, { id: String(systemId) })).html);
     for (const c of candidateIds) {
-      const id = await selectCandidate(v, c, `Walk ${c}`, "");
-      for (const who of [m, us]) {
+      // Each reader selects the candidate (the selection's engineer gets the field check's e-mail), records a check, reads the report.
+      for (const [who, viewer] of [[m, v], [us, vUs]] as const) {
+        const id = await selectCandidate(viewer, c, `Walk ${c}`, "");
+        const mail = await checkWithMail(viewer, who.email, id);
         const pages = await selectionPages(who, id);
         walked.push({
-          where: `${d.system}, candidate ${order.indexOf(c) + 1} (${who === us ? "US" : "SI"})`, us: who === us, pages,
+          where: `${d.system}, candidate ${order.indexOf(c) + 1} (${who === us ? "US" : "SI"})`, us: who === us, pages, mail,
           systemColumn: candidateColumns(systemPages.get(who)!)[order.indexOf(c)], reportColumn: candidateColumns(pages.html)[0],
         });
       }
@@ -61,7 +86,7 @@ describe("every demo selection's report, as the engineer who signs it", () => {
   test("no NaN, Infinity, undefined, null, [object …] or unrendered quantity token in the report (text and tooltips) or the CSV", () => {
     const hits: string[] = [];
     for (const w of walked) {
-      for (const [what, text] of [["report", `${w.pages.text}\n${titlesOf(w.pages.html).join("\n")}`], ["CSV", w.pages.csvText]] as const) {
+      for (const [what, text] of [["report", `${w.pages.text}\n${titlesOf(w.pages.html).join("\n")}`], ["CSV", w.pages.csvText], ["e-mail", w.mail]] as const) {
         for (const m of text.matchAll(BAD_WORDS)) hits.push(`${w.where} ${what}: …${text.slice(Math.max(0, m.index! - 60), m.index! + 30)}…`);
       }
     }
@@ -72,7 +97,7 @@ describe("every demo selection's report, as the engineer who signs it", () => {
     const hits: string[] = [];
     let siSeen = 0;
     for (const w of walked) {
-      const found = noSiWords(`${w.pages.text}\n${titlesOf(w.pages.html).join("\n")}`);
+      const found = noSiWords(`${w.pages.text}\n${titlesOf(w.pages.html).join("\n")}\n${w.mail}`);
       if (w.us) hits.push(...found.map((h) => `${w.where}: …${h}…`));
       else siSeen += found.length;
     }
@@ -106,6 +131,25 @@ describe("every demo selection's report, as the engineer who signs it", () => {
   test("the headline verdict, its qualifiers and every verdict of the figures state their rule and numbers", () => {
     const problems = walked.flatMap((w) => verdictProblems(w.pages.html).map((p) => `${w.where}: ${p}`));
     expect(problems).toEqual([]);
+  });
+
+  test("the field check listed on the report and the engineer's e-mail state the check's verdict with its grade's rule and numbers, and the cautions", () => {
+    const wrong: string[] = [];
+    for (const w of walked) {
+      const row = /<table[^>]*aria-label="Field checks of this selection"[^>]*>([\s\S]*?)<\/table>/.exec(w.pages.html)?.[1] ?? "";
+      const cells = [...row.matchAll(/<td[^>]*>([\s\S]*?)<\/td>/g)].map((c) => textOf(c[1]));
+      const verdict = cells[3] ?? "";
+      const rule = cells[4] ?? "";
+      if (!Object.values(VERDICT_TEXT).some((t) => verdict.startsWith(t))) wrong.push(`${w.where}: report's check verdict "${verdict}"`);
+      if (!/grade 2B/.test(rule) || (rule.match(/\d[\d.,]*/g) ?? []).length < 4) wrong.push(`${w.where}: report's check rule without its numbers: "${rule}"`);
+      const said = /^Verdict: (.*)\.$/m.exec(w.mail)?.[1];
+      if (!said) wrong.push(`${w.where}: e-mail without a verdict line`);
+      const judged = /Judged against grade 2B: .*$/m.exec(w.mail)?.[0] ?? "";
+      if ((judged.match(/\d[\d.,]*/g) ?? []).length < 4) wrong.push(`${w.where}: e-mail's verdict without its rule and numbers: "${judged}"`);
+      if (!w.mail.includes("verify against the manufacturer's certified data, local codes and a licensed engineer")) wrong.push(`${w.where}: e-mail without the caution`);
+    }
+    expect(wrong).toEqual([]);
+    expect(walked[0].mail, "control: the mail was read").toMatch(/recorded a field check on the selection/);
   });
 
   test("the CSV carries the report's verdict and each of its qualifiers (SI readers: the same words)", () => {
