@@ -12,7 +12,7 @@ import { searchForSystem } from "../lib/projects";
 import { DEFAULT_ADJUSTMENT, evaluateSystem } from "../lib/projects/hydraulics";
 import { demoLibraries } from "../../fixtures/demo";
 import { seedFieldChecks } from "./seed-fieldchecks";
-import { demoSystems } from "./demo-systems";
+import { demoSystems, type DemoSystem } from "./demo-systems";
 
 export const DEMO_PASSWORD = "duty-demo-2026";
 
@@ -109,33 +109,47 @@ export async function seedProjects(): Promise<number> {
   const [eng] = await db().select().from(users).where(eq(users.email, "engineer@kestrel.example"));
   const v = await viewerFor("kestrel", "engineer", eng.id);
   const have = await listProjects(v);
-  const demos = demoSystems();
   let made = 0;
-  for (const d of demos) {
+  for (const d of demoSystems()) {
     if (have.some((p) => p.name === d.project.name)) continue;
-    // The duty head is the system's head at the duty flow at the band's demanding edge (most lift,
-    // aged pipe: where the verdicts are judged), rounded up to 0.5 m.
-    const ev = evaluateSystem(d.input, { flowMax: d.input.duty!.flow, points: 2 });
-    const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.high[1] * 2) / 2 } };
-    const projectId = await createProject(v, d.project);
-    const systemId = await createSystem(v, projectId, d.system, input);
-    const found = await searchForSystem(v, systemId);
-    const picks = found.results.filter((r, i, all) => all.findIndex((x) => x.curveSetId === r.curveSetId) === i).slice(0, 3);
-    const ids: number[] = [];
-    for (const r of picks) {
-      const added = await addCandidate(v, systemId, r.curveSetId, { ...DEFAULT_ADJUSTMENT, method: r.method === "direct" ? "none" : r.method });
-      if (added.ok) ids.push(added.id);
-    }
-    // No pump meets the duty as published: one more candidate held at a fixed drive speed (the
-    // search's speed rounded up to the next whole percent), as an engineer would set a drive.
-    if (!picks.some((r) => r.method === "direct")) {
-      const fixed = found.results.find((r) => r.method === "speed" && !picks.some((p) => p.curveSetId === r.curveSetId));
-      if (fixed) await addCandidate(v, systemId, fixed.curveSetId, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: Math.ceil(fixed.ratio * 100 + 0.5) / 100 });
-    }
-    if (ids[0]) await selectCandidate(v, ids[0], "", "Demo selection: best-ranked candidate, adjusted to the duty.");
+    await seedDemoProject(v, d);
     made++;
   }
   return made;
+}
+
+/**
+ * One demo project as the seed makes it, in the viewer's workspace: the system with its duty head at the band's demanding
+ * edge, the search's best three distinct pumps as candidates (and one held at a fixed drive speed where none meets as
+ * published), the first selected. Also the report walk's fixture (app/test/report-walk.test.ts). Returns the system's id
+ * and its candidates' ids in the order added.
+ */
+export async function seedDemoProject(v: Viewer, d: DemoSystem): Promise<{ systemId: number; candidateIds: number[] }> {
+  // The duty head is the system's head at the duty flow at the band's demanding edge (most lift,
+  // aged pipe: where the verdicts are judged), rounded up to 0.5 m.
+  const ev = evaluateSystem(d.input, { flowMax: d.input.duty!.flow, points: 2 });
+  const input = { ...d.input, duty: { flow: d.input.duty!.flow, head: Math.ceil(ev.high[1] * 2) / 2 } };
+  const projectId = await createProject(v, d.project);
+  const systemId = await createSystem(v, projectId, d.system, input);
+  const found = await searchForSystem(v, systemId);
+  const picks = found.results.filter((r, i, all) => all.findIndex((x) => x.curveSetId === r.curveSetId) === i).slice(0, 3);
+  const ids: number[] = [];
+  for (const r of picks) {
+    const added = await addCandidate(v, systemId, r.curveSetId, { ...DEFAULT_ADJUSTMENT, method: r.method === "direct" ? "none" : r.method });
+    if (added.ok) ids.push(added.id);
+  }
+  const first = ids[0];
+  // No pump meets the duty as published: one more candidate held at a fixed drive speed (the
+  // search's speed rounded up to the next whole percent), as an engineer would set a drive.
+  if (!picks.some((r) => r.method === "direct")) {
+    const fixed = found.results.find((r) => r.method === "speed" && !picks.some((p) => p.curveSetId === r.curveSetId));
+    if (fixed) {
+      const held = await addCandidate(v, systemId, fixed.curveSetId, { ...DEFAULT_ADJUSTMENT, method: "speed", ratio: Math.ceil(fixed.ratio * 100 + 0.5) / 100 });
+      if (held.ok) ids.push(held.id);
+    }
+  }
+  if (first) await selectCandidate(v, first, "", "Demo selection: best-ranked candidate, adjusted to the duty.");
+  return { systemId, candidateIds: ids };
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === path.resolve(process.argv[1])) {

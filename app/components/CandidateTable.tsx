@@ -5,7 +5,7 @@
 import type { WorkbenchView } from "~/lib/projects/workbench-view";
 import type { FlowTolerance } from "~/engine";
 import { fmtFlow, fmtHead, fmtPct, fmtPower, fmtQAboveZero, fmtQExact, renderUnits, type UnitChoice } from "~/lib/shared/units";
-import { bandFlowText, bepPositionText, dutyFlowLimits, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshUnjudgedText } from "./candidate-figures";
+import { bandFlowText, bepPositionText, dutyFlowLimits, loadText, npshJudgedRange, npshLowestText, npshMarginText, npshPairText, npshPointsText, npshStatusText, npshUnjudgedText } from "./candidate-figures";
 import type { BandPoint, NpshJudgement } from "~/lib/projects/candidate-judgement";
 import { pumpsBasis, type PumpsBasis } from "~/lib/projects/power-basis";
 import { cycleHoursText, energyRows } from "~/components/CandidateEnergy";
@@ -125,7 +125,7 @@ export function CandidateTable({ view, unitSystem, actions, duty, tolerance, cur
       return (
         <span title={n ? [n.rule, npshPointsText(unitSystem, n)].filter(Boolean).join(". ") : undefined}>
           {ratios ?? (n && (n.status !== "unknown" || unjudged) ? null : "—")}
-          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}>{ratios ? " — " : ""}{npshLowestText(unitSystem, n)} ({n.status})</span> : null}
+          {n && n.status !== "unknown" ? <span className={bad ? "font-semibold text-fail" : ""}>{ratios ? " — " : ""}{npshLowestText(unitSystem, n)} ({npshStatusText(n.status, n.requiredMargin, n.available != null && n.available <= 0)})</span> : null}
           {n && unjudged ? (
             <span className="font-semibold text-duty-ink">
               {ratios ? " — " : ""}
@@ -146,7 +146,7 @@ export function CandidateTable({ view, unitSystem, actions, duty, tolerance, cur
     ["NPSH margin", (c) => {
       const f = c.result?.figures;
       if (f?.npshAvailable != null && f.npshAvailable <= 0) return <span className="font-semibold text-fail">NPSHa {fmtQAboveZero(unitSystem, "head", f.npshAvailable)}, at or below zero (cavitation-risk)</span>;
-      if (f?.npshMarginRatio != null) return <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({f.npshStatus})</span>;
+      if (f?.npshMarginRatio != null) return <span className={f.npshStatus === "ok" ? "" : "font-semibold text-fail"}>{npshMarginText(f.npshMarginRatio, c.result?.npsh?.requiredMargin)} ({npshStatusText(f.npshStatus ?? "unknown", c.result?.npsh?.requiredMargin)})</span>;
       // NPSHa above zero and no NPSHr there: nothing was checked, said so with the flow (decision "npshzero") and where the
       // NPSHr curve stops, or its one point (npshr-reach.ts, decision "npshone"), never a bare dash.
       const q = c.result?.operating?.flow;

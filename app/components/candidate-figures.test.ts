@@ -46,7 +46,7 @@ describe("the candidates table's judged figures read apart from their limits", (
       const inPor = r >= 0.7 && r <= 1.2;
       if (inPor) continue;
       const t = cell(view({ ...ok, bepRatio: r, inPor }, 1.1), SI_UNITS, "Position vs BEP");
-      const m = /^([\d.]+) % of BEP flow — outside POR$/.exec(t);
+      const m = /^([\d.]+) % of BEP flow — outside POR 70–120 %$/.exec(t); // the region's limits on the line (ANSI/HI 9.6.3)
       expect(m, t).toBeTruthy();
       expectApart(m![1], r * 100, limit * 100, t);
     }
@@ -67,10 +67,12 @@ describe("the candidates table's judged figures read apart from their limits", (
       const ratio = limit * (1 + off);
       const status = ratio < 1 ? "cavitation-risk" : ratio < req ? "low-margin" : "ok";
       const t = cell(view({ ...ok, npshMarginRatio: ratio, npshStatus: status }, req), SI_UNITS, "NPSH margin");
-      const m = /^([\d.]+) \((ok|low-margin|cavitation-risk)\)$/.exec(t);
+      const m = /^([\d.]+) \((ok: at least the wanted [\d.]+|low-margin: below the wanted [\d.]+|cavitation-risk: below 1)\)$/.exec(t);
       expect(m, t).toBeTruthy();
+      expect(m![2].split(":")[0], t).toBe(status);
+      if (status !== "cavitation-risk") expect(m![2], t).toMatch(new RegExp(`wanted ${req}$`)); // the wanted ratio as typed
       for (const l of [1, req]) expectApart(m![1], ratio, l, `${t} against ${l}`);
-      const lowest = new RegExp(`lowest ([\\d.]+) at design point \\(${status}\\)`).exec(cell(view({ ...ok, npshMarginRatio: ratio, npshStatus: status }, req), SI_UNITS, "NPSH margin over the band"));
+      const lowest = new RegExp(`lowest ([\\d.]+) at design point \\(${status}: `).exec(cell(view({ ...ok, npshMarginRatio: ratio, npshStatus: status }, req), SI_UNITS, "NPSH margin over the band"));
       if (status !== "ok") {
         expect(lowest, t).toBeTruthy();
         for (const l of [1, req]) expectApart(lowest![1], ratio, l, `lowest ${lowest![1]} against ${l}`);
@@ -85,17 +87,17 @@ describe("the candidates table's judged figures read apart from their limits", (
     expect(npshMarginText(1.0996, undefined)).toBe("1.10"); // a selection frozen before the wanted ratio was kept: apart from 1 only
   });
   it("values well apart from their limits read as before (hand-written cases)", () => {
-    expect(cell(view({ ...ok, bepRatio: 0.55, inPor: false }, 1.1), SI_UNITS, "Position vs BEP")).toBe("55 % of BEP flow — outside POR");
+    expect(cell(view({ ...ok, bepRatio: 0.55, inPor: false }, 1.1), SI_UNITS, "Position vs BEP")).toBe("55 % of BEP flow — outside POR 70–120 %");
     expect(cell(view({ ...ok, bepRatio: 0.95, inPor: true }, 1.1), SI_UNITS, "Position vs BEP")).toBe("95 % of BEP flow");
     expect(cell(view(ok, 1.1), SI_UNITS, "NPSHa / NPSHr (design curve)")).toBe("8.00 m / 4.00 m");
-    expect(cell(view(ok, 1.1), SI_UNITS, "NPSH margin")).toBe("2.00 (ok)");
+    expect(cell(view(ok, 1.1), SI_UNITS, "NPSH margin")).toBe("2.00 (ok: at least the wanted 1.1)");
   });
   it("NPSHa at or below zero without NPSHr decides at a corner: the band cell names NPSHa and the corner, in m and ft (made-up figures)", () => {
     const v = view(ok, 1.1);
     const c = v.candidates[0] as unknown as { result: { npsh: object } };
     c.result.npsh = { status: "cavitation-risk", marginRatio: null, at: "least lift, aged pipe", available: -1.18, rule: "rule", requiredMargin: 1.1 };
-    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("NPSHa −1.18 m at least lift, aged pipe (cavitation-risk)");
-    expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("NPSHa −3.87 ft at least lift, aged pipe (cavitation-risk)"); // 1.18 m / 0.3048
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("NPSHa −1.18 m at least lift, aged pipe (cavitation-risk: NPSHa at or below zero)");
+    expect(cell(v, US_UNITS, "NPSH margin over the band")).toBe("NPSHa −3.87 ft at least lift, aged pipe (cavitation-risk: NPSHa at or below zero)"); // 1.18 m / 0.3048
   });
 
   it("the range beside 'lowest … at <corner>' holds that lowest: every judged point, not only the band's two edges (made-up figures)", () => {
@@ -105,8 +107,8 @@ describe("the candidates table's judged figures read apart from their limits", (
     c.result.band = [{ edge: "least lift, new pipe", npshMarginRatio: 1.45 }, { edge: "most lift, aged pipe", npshMarginRatio: 1.32 }];
     c.result.npsh = { status: "cavitation-risk", marginRatio: 0.958, at: "least lift, aged pipe", available: 2.395, rule: "rule", requiredMargin: 1.1,
       judgedAt: [{ at: "design point", marginRatio: 1.38 }, { at: "least lift, new pipe", marginRatio: 1.45 }, { at: "least lift, aged pipe", marginRatio: 0.958 }, { at: "most lift, aged pipe", marginRatio: 1.32 }] };
-    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("0.96 – 1.45 — lowest 0.96 at least lift, aged pipe (cavitation-risk)");
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("0.96 – 1.45 — lowest 0.96 at least lift, aged pipe (cavitation-risk: below 1)");
     delete (c.result.npsh as { judgedAt?: unknown }).judgedAt; // a selection frozen before the corners were kept: the two edges, as before
-    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("1.45 – 1.32 — lowest 0.96 at least lift, aged pipe (cavitation-risk)");
+    expect(cell(v, SI_UNITS, "NPSH margin over the band")).toBe("1.45 – 1.32 — lowest 0.96 at least lift, aged pipe (cavitation-risk: below 1)");
   });
 });

@@ -25,13 +25,34 @@ export function loadText(load: number | null | undefined, serviceFactor: number 
   return fmtPctExact(load, serviceFactor != null && serviceFactor !== 1 ? [1, serviceFactor] : [1], 0);
 }
 
+/** The preferred operating region as the verdict beside it names it: "POR 70–120 %" (engine POR_FRACTION, ANSI/HI 9.6.3). */
+export const POR_TEXT = `POR ${Math.round(POR_FRACTION.min * 100)}–${Math.round(POR_FRACTION.max * 100)} %`;
+
 /**
- * The operating flow as a share of BEP flow, e.g. "69.96 % of BEP flow — outside POR" (not "70 %").
+ * The operating flow as a share of BEP flow, e.g. "69.96 % of BEP flow — outside POR 70–120 %" (not "70 %"): the region's
+ * limits on the verdict's line, as the search row writes them (a tooltip does not print).
  * @param ratio Q / Q_BEP (dimensionless)
  * @param inPor inside the preferred operating region (70–120 % of BEP flow), null when not known
  */
 export function bepPositionText(ratio: number, inPor: boolean | null | undefined): string {
-  return `${bepPercentText(ratio, inPor)} of BEP flow${inPor === false ? " — outside POR" : ""}`;
+  return `${bepPercentText(ratio, inPor)} of BEP flow${inPor === false ? ` — outside ${POR_TEXT}` : ""}`;
+}
+
+/**
+ * An NPSH status with the rule that decided it, for the table's cells, which print (their tooltips do not): "ok: at least
+ * the wanted 1.2", "low-margin: below the wanted 1.2", "cavitation-risk: below 1", "cavitation-risk: NPSHa at or below zero";
+ * the status alone where the selection was frozen before the wanted ratio was kept, and "unknown" as it is.
+ * @param status the NPSH status ("ok", "low-margin", "cavitation-risk", "unknown")
+ * @param requiredMargin the wanted NPSHa / NPSHr (dimensionless; null or absent where not kept)
+ * @param atOrBelowZero NPSHa at or below zero decided it (m), whatever NPSHr
+ */
+export function npshStatusText(status: string, requiredMargin: number | null | undefined, atOrBelowZero = false): string {
+  if (status === "cavitation-risk") return `${status}: ${atOrBelowZero ? "NPSHa at or below zero" : "below 1"}`;
+  const wanted = requiredMargin != null && Number.isFinite(requiredMargin) ? String(requiredMargin) : null; // as the verdict's qualifier writes it (verdict-npsh.ts)
+  if (wanted == null) return status;
+  if (status === "ok") return `${status}: at least the wanted ${wanted}`;
+  if (status === "low-margin") return `${status}: below the wanted ${wanted}`;
+  return status;
 }
 
 /**

@@ -39,15 +39,15 @@ describe("NPSH margin over the band where NPSHa is at or below zero at every poi
   });
   it("no ratio: the cell reads the lowest NPSHa and where, in SI and US units", () => {
     const si = cells(r)["NPSH margin over the band"];
-    expect(si).toMatch(/^NPSHa −0\.\d+ m at least lift, aged pipe \(cavitation-risk\)$/);
-    expect(cells(r, US_UNITS)["NPSH margin over the band"]).toMatch(/^NPSHa −0\.\d+ ft at least lift, aged pipe \(cavitation-risk\)$/);
+    expect(si).toMatch(/^NPSHa −0\.\d+ m at least lift, aged pipe \(cavitation-risk: NPSHa at or below zero\)$/);
+    expect(cells(r, US_UNITS)["NPSH margin over the band"]).toMatch(/^NPSHa −0\.\d+ ft at least lift, aged pipe \(cavitation-risk: NPSHa at or below zero\)$/);
   });
   it("a selection frozen before the judged points were kept, with the negative ratios then computed: not shown either", () => {
     // NPSHa / NPSHr as the old evaluation froze it where NPSHa ≤ 0 (negative): the table's own guard keeps it out.
     const oldRatio = <T extends { npshMarginRatio: number | null; npshAvailable?: number | null; npshRequired?: number | null }>(b: T): T => ({ ...b, npshMarginRatio: b.npshAvailable! / b.npshRequired! });
     const frozen = { ...r, band: r.band.map(oldRatio), figures: oldRatio(r.figures!), npsh: { ...r.npsh, judgedAt: undefined } } as unknown as R;
     expect(frozen.band.every((b) => b.npshMarginRatio! < 0)).toBe(true);
-    expect(cells(frozen)["NPSH margin over the band"]).toMatch(/^NPSHa −0\.\d+ m at least lift, aged pipe \(cavitation-risk\)$/);
+    expect(cells(frozen)["NPSH margin over the band"]).toMatch(/^NPSHa −0\.\d+ m at least lift, aged pipe \(cavitation-risk: NPSHa at or below zero\)$/);
   });
   it("the flip: at 20 °C (NPSHa above zero) the ratios over the band are shown", () => {
     const cold = evaluate({ ...defaultSystemInput(), suctionStaticHead: 0 });
@@ -81,7 +81,7 @@ describe("NPSH margin over the band of a curve without NPSHr (nothing judged any
     expect(cell).not.toMatch(/— —/);
   });
   it("the flip: with NPSHr the ratios lead and the dash separates them from the lowest", () => {
-    expect(cells(evaluate(defaultSystemInput()))["NPSH margin over the band"]).toMatch(/^\d+\.\d+( – \d+\.\d+)? — lowest \d+\.\d+ at .* \(ok\)$/);
+    expect(cells(evaluate(defaultSystemInput()))["NPSH margin over the band"]).toMatch(/^\d+\.\d+( – \d+\.\d+)? — lowest \d+\.\d+ at .* \(ok: at least the wanted [\d.]+\)$/);
   });
 });
 

@@ -40,9 +40,9 @@ describe("an NPSH margin ratio just above zero", () => {
     expect(npshMarginText(0.01, 1.1)).toBe("0.01");
   });
   it("the table's NPSH margin row: '< 0.01 (cavitation-risk)' at 1e-15 / 2.25 (4.44e-16) and 0.004; '0.01 (cavitation-risk)' at 0.01", () => {
-    expect(ratioCell(1e-15 / NPSHR)).toBe("< 0.01 (cavitation-risk)");
-    expect(ratioCell(0.004)).toBe("< 0.01 (cavitation-risk)");
-    expect(ratioCell(0.01)).toBe("0.01 (cavitation-risk)");
+    expect(ratioCell(1e-15 / NPSHR)).toBe("< 0.01 (cavitation-risk: below 1)");
+    expect(ratioCell(0.004)).toBe("< 0.01 (cavitation-risk: below 1)");
+    expect(ratioCell(0.01)).toBe("0.01 (cavitation-risk: below 1)");
   });
   it("the band's lowest, range and points, and the verdict's NPSH qualifier, by the same rule", () => {
     for (const [r, shown] of [[1e-15, "< 0.01"], [0.004, "< 0.01"], [0.01, "0.01"]] as const) {

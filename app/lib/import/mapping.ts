@@ -3,7 +3,7 @@
  * A Mapping is a plain JSON object: it is saved per library and offered again, and comes back
  * from a form, where MappingSchema validates it. Pure: no Node or DOM APIs.
  */
-import { shiftedRowReason, unnamedNumberReason, unnamedTailOf } from "./shifted-cells";
+import { filledCellsBeyond, shiftedRowReason, unnamedNumberReason, unnamedTailOf } from "./shifted-cells";
 import * as v from "valibot";
 import { parseNumber } from "./numbers";
 import { oneLine } from "./text-cells";
@@ -330,7 +330,7 @@ export function toLongRows(rows: SourceRow[], mapping: Mapping, headers: string[
   const cellOf = (row: SourceRow, c: MappedColumn): Cell => ({ raw: row.cells[c.index] ?? "", column: c.header, unit: (c.unit ?? null) as Unit | null });
 
   for (const row of rows) {
-    const extra = row.cells.slice(headers.length).filter((x) => x.trim() !== "").length;
+    const extra = filledCellsBeyond(row.cells, headers.length);
     const beyond = extra ? shiftedRowReason(row.cells, headers.length) : null;
     if (extra && !beyond)
       problems.push({ row: row.line, column: null, reason: `row has ${extra} filled cell(s) beyond the ${headers.length} header columns; they were ignored`, severity: "warning", code: "extra-cells", curveKey: null });

@@ -12,19 +12,46 @@ import { looksNumeric } from "./numbers";
 const SHOWN = 160;
 
 /**
+ * How many of the row's cells beyond the header's columns are filled (not blank once trimmed): one pass, no copy of the
+ * row (a 10 MB line is 5 M cells).
+ * @param cells the row's cells as parsed
+ * @param width the header's columns
+ */
+export function filledCellsBeyond(cells: readonly string[], width: number): number {
+  let n = 0;
+  for (let i = width; i < cells.length; i++) if (cells[i].trim() !== "") n++;
+  return n;
+}
+
+/**
+ * The row's cells as written, trimmed and joined by " | ", cut to `SHOWN` characters with "…": joined only as far as the
+ * message shows (the same text as joining them all and cutting).
+ */
+function shownCells(cells: readonly string[]): string {
+  let written = "";
+  for (let i = 0; i < cells.length; i++) {
+    written += (i ? " | " : "") + cells[i].trim();
+    if (written.length > SHOWN) return `${written.slice(0, SHOWN - 1)}…`;
+  }
+  return written;
+}
+
+/**
  * Why the row's values cannot be read by their columns, or null when its cells beyond the header hold no number.
  * @param cells the row's cells as parsed
  * @param width the header's columns
  */
 export function shiftedRowReason(cells: readonly string[], width: number): string | null {
-  const extra = cells.slice(width).filter((x) => x.trim() !== "");
-  const numbers = extra.filter((x) => looksNumeric(x.trim()));
+  // The first three numbers beyond the header are all the message names (one, or more than one).
+  const numbers: string[] = [];
+  for (let i = width; i < cells.length && numbers.length < 3; i++) {
+    const x = cells[i].trim();
+    if (x !== "" && looksNumeric(x)) numbers.push(x);
+  }
   if (numbers.length === 0) return null;
-  const written = cells.map((c) => c.trim()).join(" | ");
-  const shown = written.length > SHOWN ? `${written.slice(0, SHOWN - 1)}…` : written;
   return (
-    `row has ${extra.length} filled cell(s) beyond the ${width} header columns, ${numbers.length === 1 ? "a number" : "numbers"} among them (“${numbers.slice(0, 3).map((x) => x.trim()).join("”, “")}”); ` +
-    `its cells as read: ${shown}. A number written with a decimal comma in a comma-separated file (27,5) is split in two and moves the cells after it one column right, ` +
+    `row has ${filledCellsBeyond(cells, width)} filled cell(s) beyond the ${width} header columns, ${numbers.length === 1 ? "a number" : "numbers"} among them (“${numbers.join("”, “")}”); ` +
+    `its cells as read: ${shownCells(cells)}. A number written with a decimal comma in a comma-separated file (27,5) is split in two and moves the cells after it one column right, ` +
     `so this row's values cannot be read by their columns — write 27.5 (a comma-separated file takes a decimal point), or remove the stray cells; the point is left out`
   );
 }
@@ -68,8 +95,7 @@ export function unnamedNumberReason(cells: readonly string[], headers: readonly 
   const at = t.tail.find((n) => looksNumeric((cells[n] ?? "").trim()));
   if (at === undefined) return null;
   const spill = (cells[at] ?? "").trim();
-  const written = cells.map((c) => c.trim()).join(" | ");
-  const shown = written.length > SHOWN ? `${written.slice(0, SHOWN - 1)}…` : written;
+  const shown = shownCells(cells);
   const name = headers[t.last];
   return {
     column: name,

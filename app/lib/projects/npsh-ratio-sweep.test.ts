@@ -85,7 +85,7 @@ describe("every surface, live and frozen before (negative ratios kept then)", ()
       expect(Number(csvFigure(r, z, "npsh_available"))).toBeLessThanOrEqual(0);
       const cells = tableCells(r);
       expect(cells["NPSH margin"]).toMatch(/^NPSHa (−?\d+\.\d+|below 0) m, at or below zero \(cavitation-risk\)$/); // a hair below zero "below 0 m" (decision "npshone")
-      expect(cells["NPSH margin over the band"]).toMatch(/NPSHa (−?\d+\.\d+|below 0) m at [^(]*\(cavitation-risk\)$/); // ratios only where NPSHa > 0
+      expect(cells["NPSH margin over the band"]).toMatch(/NPSHa (−?\d+\.\d+|below 0) m at [^(]*\(cavitation-risk: NPSHa at or below zero\)$/); // ratios only where NPSHa > 0
       expect(cells["NPSH margin over the band"]).not.toMatch(NO_RATIO_TEXT);
       const note = npshNoteOf(r, SI_UNITS)!;
       expect(note).toMatch(/NPSHa (−?\d+\.\d+|below 0) m, at or below zero/);
@@ -100,7 +100,7 @@ describe("every surface, live and frozen before (negative ratios kept then)", ()
     expect(api.figures!.npshMarginRatio!).toBeGreaterThan(0);
     expect((selectionJson({ id: 1, title: "t", note: "", createdAt: new Date(0) }, frozenOf(above, hi)).result.figures as { npshMarginRatio: number }).npshMarginRatio).toBeGreaterThan(0);
     expect(Number(csvFigure(above, hi, "npsh_margin_ratio"))).toBeGreaterThan(0);
-    expect(tableCells(above)["NPSH margin"].replace(/&lt;/g, "<")).toBe("< 0.01 (cavitation-risk)"); // NPSHa / NPSHr just above zero (was "4.44e-16 …"; tiny-ratio.test.ts)
+    expect(tableCells(above)["NPSH margin"].replace(/&lt;/g, "<")).toBe("< 0.01 (cavitation-risk: below 1)"); // NPSHa / NPSHr just above zero (was "4.44e-16 …"; tiny-ratio.test.ts)
     expect(tableCells(above)["NPSH margin"]).not.toMatch(/at or below zero/);
   });
 });
