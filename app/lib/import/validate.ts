@@ -43,7 +43,8 @@ import { hasLineBreak, textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { MinFlowCells } from "./min-flow";
 import { strayKeyProblems, type KeyRun } from "./stray-keys";
-import { checkCurve, WATER_20C_DENSITY, type Building } from "./curve-sequence";
+import { checkCurve, type Building } from "./curve-sequence";
+import { DEFAULT_POWER_DENSITY } from "../../engine/pumpCurve.ts";
 import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -92,14 +93,14 @@ export interface ValidateOptions {
    * drop-points: a curve is imported when it keeps at least 3 good points; the bad ones are dropped and listed.
    */
   policy?: Policy;
-  /** Fluid density for the η = ρgQH/P consistency check, kg/m³ (default: water at 20 °C, 998.2). */
+  /** Fluid density for the η = ρgQH/P consistency checks, kg/m³ (default: 1000, the engine's DEFAULT_POWER_DENSITY, which it reads power columns at). */
   density?: number;
 }
 
 
 export function validateLongRows(rows: LongRow[], opts: ValidateOptions): ValidationResult {
   const problems: Problem[] = [];
-  const density = opts.density ?? WATER_20C_DENSITY;
+  const density = opts.density ?? DEFAULT_POWER_DENSITY;
   const curves = new Map<string, Building>();
   const order: string[] = [];
   const lastKeyInBlock = new Map<number, string>();
