@@ -223,6 +223,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
       if (powerImplausible()) return null; // powers far above ρgQH at every point: W read as kW
       if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
+      // the same model and one key the same, the other another, the flow rising on across: perhaps a mistyped key (stray-keys.ts)
+      if (cur && model === curModel && (speed === curSpeed) !== (impeller === curImpeller) && num[2] > prevFlow) return null;
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
       seen.add(key);

@@ -289,7 +289,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw, powerRaw: lr.cells.power?.raw });
   }
 
-  for (const p of strayKeyProblems(keyRuns)) add(p.row, p.column, p.code, p.reason, p.curveKey);
+  const strayCurves = new Set<string>(); // runs of 3 rows or more read as a mistyped key (stray-keys.ts): kept out under either policy
+  for (const p of strayKeyProblems(keyRuns)) {
+    add(p.row, p.column, p.code, p.reason, p.curveKey);
+    if (p.own) strayCurves.add(p.curveKey);
+  }
   // per-curve sequence checks (curve-sequence.ts)
   const curveSets: CurveSet[] = [];
   for (const key of order) {
@@ -304,7 +308,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   // unit or values are wrong), or that rises along most of its length (curve-rising: the curve is wrong), is kept out (the later copy of a duplicate is never built).
   const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "power-implausible" || code === "min-flow" || code === "curve-rising";
   const badKeys = new Set(
-    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
+    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code) || strayCurves.has(p.curveKey))).map((p) => p.curveKey!),
   );
   for (const c of curveSets) c.ok = !badKeys.has(c.key);
   problems.sort((a, b) => a.row - b.row);
