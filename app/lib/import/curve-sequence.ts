@@ -14,7 +14,7 @@ import { fractionsAmongPercents } from "./efficiency-fraction";
 import type { MinFlowCells } from "./min-flow";
 import {
   BEST_EFFICIENCY, droopingReason, efficiencyPlausible, headRefusalReason, implausibleEfficiencyReason, implausiblePowerReason, importHeadShape,
-  powerBelowHydraulicReason, powerEfficiency, POWER_EFFICIENCY_MAX,
+  powerBelowHydraulicReason, powerEfficiency, powerUnitReason, powerUnitSignature, POWER_EFFICIENCY_MAX,
 } from "./point-rules";
 import type { HeadShape } from "../../engine/headShape.ts";
 import type { Problem, ProblemCode } from "./types";
@@ -23,7 +23,10 @@ import { qt } from "../../engine/quantityText.ts"; // quantities in problem text
 
 /** The no-speed warning's words (its fix follows them); the tracer names it beside a curve traced without a speed. */
 export const NO_SPEED_WARNING = "no speed given for this curve";
-/** Water at 20 °C, kg/m³ (from memory, 998.2; the demo data in fixtures/demo/FORMAT.md uses the same) and standard gravity, m/s² (3rd CGPM 1901, exact). */
+/**
+ * Water at 20 °C, kg/m³ (from memory, 998.2; the demo data in fixtures/demo/FORMAT.md uses the same) and standard gravity, m/s² (3rd CGPM 1901, exact).
+ * The importer's power checks are judged at the engine's DEFAULT_POWER_DENSITY (1000) instead, the density it reads power columns at.
+ */
 export const WATER_20C_DENSITY = 998.2;
 export const G_STANDARD = 9.80665;
 /** η from a row versus ρgQH/P: a gap above this (fraction, i.e. 3 points of efficiency) is flagged. */
@@ -78,6 +81,13 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
     if (!r.runOut && r.point.head > 0) next = k + 1;
     aboveAfter[k] = next;
   }
+  // ρgQH/P over the column's η at each point with flow and both: one hp factor at all of them is a unit mix-up (power-efficiency)
+  const ratios = b.rows.flatMap((r) => {
+    const q = r.point;
+    return !r.runOut && !fractions.has(r.line) && q.flow > 0 && q.efficiency !== undefined && q.efficiency > 0 && q.power !== undefined
+      ? [(density * G_STANDARD * q.flow * q.head) / q.power / q.efficiency] : [];
+  });
+  const unitMixUp = powerUnitSignature(ratios);
   for (let k = 0; k < b.rows.length; k++) {
     const r = b.rows[k];
     if (r.runOut) {
@@ -97,6 +107,14 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
     const powerEta = p.power !== undefined && p.flow > 0 ? powerEfficiency(p.flow, p.head, p.power) : -1;
     if (powerEta > POWER_EFFICIENCY_MAX) {
       add(r.line, b.powerColumn, "power-below-hydraulic", powerBelowHydraulicReason(r.powerRaw ?? String(p.power), p.flow, p.head, p.power!), key);
+      continue;
+    }
+    // the powers carry the hp factor against the efficiencies at every point (point-rules.ts powerUnitSignature): each point left out
+    const implied = p.efficiency !== undefined && p.efficiency > 0 && p.power !== undefined && p.flow > 0 ? (density * G_STANDARD * p.flow * p.head) / p.power : -1;
+    if (unitMixUp && implied >= 0) {
+      add(r.line, b.powerColumn, "power-efficiency", powerUnitReason(unitMixUp,
+        { power: r.powerRaw ?? String(p.power), efficiency: r.effRaw ?? String(p.efficiency), powerColumn: b.powerColumn ?? "power", effColumn: b.effColumn ?? "efficiency" },
+        { flow: p.flow, head: p.head, power: p.power!, efficiency: p.efficiency! }, implied, density, ratios.length), key);
       continue;
     }
     if (prev) {
@@ -141,14 +159,12 @@ export function checkCurve(b: Building, key: string, add: AddProblem, density: n
       best = p.efficiency;
       bestLine = r.line;
     }
-    // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0.
-    if (p.efficiency !== undefined && p.power !== undefined && p.power > 0 && p.flow > 0) {
-      const eta = (density * G_STANDARD * p.flow * p.head) / p.power;
-      if (Math.abs(eta - p.efficiency) > CONSISTENCY_TOLERANCE)
-        add(r.line, b.effColumn, "inconsistent",
-          `efficiency ${fmt(p.efficiency * 100)} % does not agree with ρgQH/P = ${fmt(eta * 100)} % (ρ = ${qt("density", density)}): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
-          key, "warning");
-    }
+    // Consistency (definition of pump efficiency, η = ρgQH/P): only when all four are given and Q, P > 0 (a unit mix-up across the curve is an error above).
+    if (implied > 0 && Math.abs(implied - p.efficiency!) > CONSISTENCY_TOLERANCE)
+      add(r.line, b.effColumn, "inconsistent",
+        `efficiency ${fmt(p.efficiency! * 100)} % does not agree with ρgQH/P = ${fmt(implied * 100)} % from power “${(r.powerRaw ?? String(p.power)).trim()}” at ${qt("flow", p.flow)} and ${qt("head", p.head)} ` +
+        `(ρ = ${qt("density", density)}, water, as the engine reads power columns): more than ${CONSISTENCY_TOLERANCE * 100} points apart — check the power and efficiency columns and their units`,
+        key, "warning");
   }
   if (shape) {
     // the whole curve's shape: a rise beyond the allowance peaking past the middle of its flows (curve-rising), else drooping

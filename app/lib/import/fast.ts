@@ -11,7 +11,8 @@ import { parseNumber } from "./numbers";
 import { packedResult, PointStore, type SetHead } from "./packed";
 import type { SniffResult } from "./sniff";
 import { SI_FACTOR, type NumericField, type Unit } from "./units-in-headers";
-import { CONSISTENCY_TOLERANCE, G_STANDARD, WATER_20C_DENSITY, curveKey, type ValidationResult } from "./validate";
+import { CONSISTENCY_TOLERANCE, G_STANDARD, curveKey, type ValidationResult } from "./validate";
+import { DEFAULT_POWER_DENSITY } from "../../engine/pumpCurve.ts";
 import { BEST_EFFICIENCY, efficiencyPlausible, importHeadShape, NPSHR_SMALL, POWER_EFFICIENCY_MAX, powerEfficiency } from "./point-rules";
 import type { HeadShape } from "../../engine/headShape.ts";
 import { FRACTION_BELOW } from "./efficiency-fraction";
@@ -76,7 +77,7 @@ function sameText(body: string, a: number, e: number, pa: number, pe: number): b
   return true;
 }
 
-export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapping, density = WATER_20C_DENSITY): ValidationResult | null {
+export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapping, density = DEFAULT_POWER_DENSITY): ValidationResult | null {
   if (mapping.layout !== "long" || body.indexOf('"') !== -1) return null;
   const width = sniff.headers.length;
   const delim = sniff.delimiter;
@@ -222,6 +223,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
       if (best > 0 && !efficiencyPlausible(best)) return null; // implausible best efficiency
       if (powerImplausible()) return null; // powers far above ρgQH at every point: W read as kW
       if (looksLikeRating(powCount, powMin, powMax, powFirstFlow, powLastFlow)) return null; // one power at every point: a warning
+      // the same model and one key the same, the other another, the flow rising on across: perhaps a mistyped key (stray-keys.ts)
+      if (cur && model === curModel && (speed === curSpeed) !== (impeller === curImpeller) && num[2] > prevFlow) return null;
       const key = curveKey(model, speed, impeller);
       if (seen.has(key)) return null; // duplicate curve
       seen.add(key);
@@ -272,7 +275,8 @@ export function fastLongValidate(body: string, sniff: SniffResult, mapping: Mapp
     }
     if (eff === eff && pow === pow && pow > 0 && flow > 0) {
       const eta = (density * G_STANDARD * flow * head) / pow;
-      if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE) return null;
+      // past the 3-point warning, or a ratio the hp signature may reach (point-rules.ts powerUnitSignature): the full path judges the curve
+      if (Math.abs(eta - eff) > CONSISTENCY_TOLERANCE || eta < 0.8 * eff || eta > 1.25 * eff) return null;
     }
     if (pow === pow) {
       if (powCount++ === 0) powFirstFlow = flow;

@@ -20,7 +20,7 @@ const CODE_SET = {
   "no-point-values": true, "extra-cells": true, "csv-syntax": true, "mapping": true, "header-changed": true, "run-out": true,
   "inconsistent": true, "zero-dropped": true, "efficiency-implausible": true, "power-constant": true, "npshr-small": true, "key-not-given": true,
   "min-flow": true, "model-line-break": true, "efficiency-fraction": true, "curve-rising": true, "drooping-curve": true,
-  "power-below-hydraulic": true, "power-implausible": true, "key-stray": true, "header-repeated": true, "flow-descending": true,
+  "power-below-hydraulic": true, "power-implausible": true, "key-stray": true, "header-repeated": true, "flow-descending": true, "power-efficiency": true,
 } satisfies Record<ProblemCode, true>;
 const CODES = Object.keys(CODE_SET) as ProblemCode[];
 

@@ -33,4 +33,31 @@ describe("a header repeated mid-file", () => {
     );
     expect(a.result.curveSets[0].ok).toBe(false); // charged to the curve above, as any unreadable row
   });
+
+  it("a units row under the repeated header (“,rpm,mm,m3/h,m,%,kW,m”) is skipped with it (old code: 8 not-a-number errors on its line kept curve A out)", () => {
+    const names = "Model,Speed,Impeller,Flow,Head,Eff,Power,NPSHr";
+    const units = ",rpm,mm,m3/h,m,%,kW,m";
+    const a = analyseCsv([names, units, ...A, names, units, ...B].join("\n"));
+    expect(a.result.problems.map((p) => [p.row, p.column, p.code, p.severity])).toEqual([[8, null, "header-repeated", "warning"]]); // source: construction (lines 8–9)
+    expect(a.result.problems[0].reason).toContain("with its units row, line 9"); // source: construction
+    expect(a.result.curveSets.map((c) => [c.key, c.ok, c.points.length])).toEqual([["A|2900|190", true, 5], ["B|2900|190", true, 5]]); // source: construction
+  });
+
+  it("a units row under a repeated header whose first copy had none: skipped too, the columns' units stay those of line 1", () => {
+    const units = ",rpm,mm,m3/h,m,%,kW,m";
+    const a = analyseCsv([H, ...A, H, units, ...B].join("\n"));
+    expect(a.result.problems.map((p) => [p.row, p.code])).toEqual([[7, "header-repeated"]]); // source: construction
+    expect(a.result.curveSets.map((c) => [c.key, c.ok])).toEqual([["A|2900|190", true], ["B|2900|190", true]]); // source: construction
+  });
+
+  it("guard: a data row under a repeated header is not a units row: read as data (passed before too)", () => {
+    const a = analyseCsv([H, ...A, H, ...B].join("\n"));
+    expect(a.result.curveSets[1].points).toHaveLength(5); // source: construction (B's five rows)
+  });
+
+  it("guard: a units row in other units (l/s under flow_m3h) is not skipped: its cells are named, never read silently in m³/h", () => {
+    const a = analyseCsv([H, ...A, H, ",rpm,mm,l/s,m,%,kW,m", ...B].join("\n"));
+    expect(a.result.problems.find((p) => p.row === 8 && p.column === "flow_m3h")?.reason).toBe("flow “l/s” is not a number"); // source: construction
+    expect(a.result.problems[0].reason).not.toContain("units row"); // source: construction (only the header skipped)
+  });
 });

@@ -9,7 +9,7 @@ import { fastLongValidate } from "./fast";
 import { normaliseNewlines, parseRows, stripBom, isBlankRow, type ParseIssue, type SourceRow } from "./parse";
 import { readTitle, withTitleDefaults, type TitleInfo } from "./title";
 import { sniffCsv, type SniffResult } from "./sniff";
-import { unknownUnitProblems } from "./units-row";
+import { unitsRowAgrees, unknownUnitProblems } from "./units-row";
 import type { Problem } from "./types";
 import { validateLongRows, type ValidationResult } from "./validate";
 import { withRatingValues } from "./rated-values";
@@ -83,6 +83,7 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   let allRows: SourceRow[] | null = null;
   let parseIssues: ParseIssue[] = [];
   let repeats: SourceRow[] = []; // the header row written again below it (two exports joined): skipped with a warning
+  const unitsUnder = new Map<number, number>(); // a repeat's line → the line of the units row under it, skipped with it (units-row.ts unitsRowAgrees)
   const parseAll = () => {
     if (!allRows) {
       const parsed = parseRows(body, { delimiter: sniff.delimiter });
@@ -90,7 +91,14 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
       const same = (r: SourceRow) => header !== undefined && sameCells(r.cells, header.cells);
       const data = parsed.rows.slice(sniff.dataStartRow).filter((r) => !isBlankRow(r.cells));
       repeats = data.filter(same);
-      allRows = repeats.length ? data.filter((r) => !same(r)) : data;
+      if (repeats.length) {
+        const kept: SourceRow[] = [];
+        for (let i = 0; i < data.length; i++) {
+          if (!same(data[i])) kept.push(data[i]);
+          else if (i + 1 < data.length && unitsRowAgrees(data[i + 1].cells, used)) unitsUnder.set(data[i].line, data[++i].line);
+        }
+        allRows = kept;
+      } else allRows = data;
       parseIssues = parsed.issues;
     }
     return allRows;
@@ -120,7 +128,8 @@ export function analyseCsv(text: string, mapping?: unknown, opts: AnalyseOptions
   const said = empty.length ? [] : fatal ? structural : withRatingValues(structural, used, sniff.headers, long.rows, vopts, result.curveSets);
   const repeated: Problem[] = repeats.map((r) => ({
     row: r.line, column: null, severity: "warning", code: "header-repeated", curveKey: null,
-    reason: `line ${r.line} repeats the header of line ${headerLine} cell for cell (two exports joined into one file?): read as a header again and skipped; the rows below it are read by the same columns`,
+    reason: `line ${r.line} repeats the header of line ${headerLine} cell for cell (two exports joined into one file?)${unitsUnder.has(r.line) ? `, with its units row, line ${unitsUnder.get(r.line)}, in the units the columns are read in` : ""}: ` +
+      `read as a header again and skipped; the rows below it are read by the same columns`,
   }));
   const problems = [...said, ...empty, ...csvIssues, ...repeated, ...(fatal ? [] : long.problems), ...result.problems].sort((a, b) => a.row - b.row);
   const errors = problems.filter((p) => p.severity === "error").length;

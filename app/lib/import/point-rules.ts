@@ -179,3 +179,49 @@ export function implausiblePowerReason(best: number, column: string): string {
     `below ${fmtPctLimit(BEST_EFFICIENCY.min)} — are the values in “${column}” in W rather than kW, or in another unit? Set the column's unit above, or correct the values ` +
     "(a centrifugal pump's best efficiency lies roughly between 20 and 92 %, common practice)";
 }
+
+/** 1 hp = 550 ft·lbf/s = 745.69987158227022 W (NIST SP 811, Appendix B): a power in hp read as kW reads this many times too high, inverted. */
+export const HP_PER_KW = 745.6998715822702 / 1000;
+/**
+ * The power-unit signature of a curve (`power-efficiency`): at every point with flow whose efficiency and power are both given
+ * (3 or more), the ratio of the efficiency the power implies (ρgQH/P) to the column's lies within HP_SPREAD of the ratios'
+ * median, and the median within HP_NEAR of 0.7457 (the powers in hp under a kW header: 1.341× high) or of 1.341 (in kW under
+ * an hp header: 0.746× low). Rounding of published η (a whole percent) and P (3 significant figures) moves a ratio by about
+ * 2 % at η ≥ 30 % (common practice); a common factor of hp is no rounding. Any other disagreement is the 3-point warning
+ * (`inconsistent`, at the point): a power with an allowance over the η column, or one mistyped point, is not a unit.
+ */
+export const HP_NEAR = 0.03;
+export const HP_SPREAD = 0.05;
+
+/**
+ * Which unit mix-up a curve's implied-to-given efficiency ratios show: "hp-as-kW", "kW-as-hp", or null (see HP_NEAR).
+ * @param ratios ρgQH/P ÷ the column's η at each point with flow where both are given (dimensionless)
+ */
+export function powerUnitSignature(ratios: readonly number[]): "hp-as-kW" | "kW-as-hp" | null {
+  if (ratios.length < 3) return null;
+  const sorted = [...ratios].sort((a, b) => a - b);
+  const median = sorted.length % 2 ? sorted[(sorted.length - 1) / 2] : (sorted[sorted.length / 2 - 1] + sorted[sorted.length / 2]) / 2;
+  if (!ratios.every((r) => Math.abs(r / median - 1) <= HP_SPREAD)) return null;
+  if (Math.abs(median / HP_PER_KW - 1) <= HP_NEAR) return "hp-as-kW";
+  if (Math.abs(median * HP_PER_KW - 1) <= HP_NEAR) return "kW-as-hp";
+  return null;
+}
+
+/**
+ * Why a point of a curve whose powers carry the hp factor against its efficiencies is refused: both cells, the efficiency the
+ * power implies, the factor and the rule.
+ * @param kind the signature @param cells the power and efficiency cells as written, and the columns' headers
+ * @param p the point (SI: m³/s, m, W, fraction) @param implied ρgQH/P, fraction @param density kg/m³ @param n the points that show it (count)
+ */
+export function powerUnitReason(
+  kind: "hp-as-kW" | "kW-as-hp",
+  cells: { power: string; efficiency: string; powerColumn: string; effColumn: string },
+  p: { flow: number; head: number; power: number; efficiency: number },
+  implied: number, density: number, n: number,
+): string {
+  const hpAsKw = kind === "hp-as-kW";
+  return `power “${cells.power.trim()}” in “${cells.powerColumn}” (read as ${qt("power", p.power)}) at ${qt("flow", p.flow)} and ${qt("head", p.head)} implies an efficiency ρ·g·Q·H/P = ${fmtPct(implied)} ` +
+    `(ρ = ${qt("density", density)}, water, as the engine reads power columns), while the efficiency “${cells.efficiency.trim()}” in “${cells.effColumn}” on this row is ${fmtPct(p.efficiency)}: ` +
+    `${(implied / p.efficiency).toFixed(3)} times it, and at all ${n} points of this curve with both one factor within ${fmtPctLimit(HP_NEAR)} of ${hpAsKw ? "0.746 (1 hp = 0.7457 kW)" : "1.341 (1 kW = 1.341 hp)"} — ` +
+    `the powers are ${hpAsKw ? "in hp under a kW header, read 1.341× too high" : "in kW under an hp header, read 0.746× too low"}: set the column's unit to ${hpAsKw ? "hp" : "kW"} above, or correct the values; this point is left out`;
+}

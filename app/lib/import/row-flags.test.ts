@@ -12,10 +12,10 @@ describe("row flags name their column and the cell as written", () => {
   });
 
   it("the η-vs-ρgQH/P warning names the efficiency column (old code: no column)", () => {
-    // 5 % given at 20 m³/h and 38.5 m with 3.5 kW: ρgQH/P = 59.8 % (998.2 × 9.80665 × 20/3600 × 38.5 / 3500, python3)
+    // 5 % given at 20 m³/h and 38.5 m with 3.5 kW: ρgQH/P = 59.9 % (1000 × 9.80665 × 20/3600 × 38.5 / 3500, python3; ρ the engine's DEFAULT_POWER_DENSITY)
     const p = analyseCsv(withCell(2, 5, "5")).result.problems;
     expect(p.map((q) => [q.row, q.column, q.code, q.severity])).toEqual([[4, "efficiency_pct", "inconsistent", "warning"]]); // source: construction
-    expect(p[0].reason).toContain("ρgQH/P = 59.822 %"); // source: python3 above
+    expect(p[0].reason).toContain("ρgQH/P = 59.93 %"); // source: python3 above
   });
 
   it("guard: efficiency 100.5 % is still above 100 % (passed before too)", () => {

@@ -36,7 +36,8 @@ export type ProblemCode =
   | "power-implausible"
   | "key-stray"
   | "header-repeated"
-  | "flow-descending";
+  | "flow-descending"
+  | "power-efficiency";
 
 export interface Problem {
   /** 1-based source line number of the row (the header line for file-wide problems). */

@@ -167,7 +167,7 @@ const FIELD_RULES: Array<[Exclude<Field, "ignore">, RegExp]> = [
   ["efficiency", /\beff|efficiency|\beta\b|η|wirkungsgrad|rendement/],
   ["power", /power|\bp[12]\b|\bbhp\b|\bb?kw\b|\bhp\b|^p\b|\bpwr\b|leistung|puissance/],
   ["speed", /speed|\brpm\b|^n\b|1\/min|min-1|min⁻¹|drehzahl|vitesse/],
-  ["impeller", /impeller|diam|\bdia\b|\btrim\b|laufrad|ø|⌀|^d2?\b/],
+  ["impeller", /impeller|diam|\bdia\b|\btrim\b|laufrad|ø|⌀|^d2?(?![a-z0-9à-ÿ])/], // "d", "D2"; not "débit" (\b ends a word before é)
   ["flow", /flow|^q\b|\bq\b|capacity|\bvolume|förderstrom|durchfluss|débit|\bgpm\b|\b(?:i|us|uk)gpm\b|gal\s*\/\s*min|m3\/|l\/s|l\/min|l\/h\b|\blps\b|\blpm\b|\blph\b|\bcmh\b/],
   ["head", /head|^h\b|\bh\b|\btdh\b|\blift\b|förderhöhe|hauteur/],
   ["type", /\btype\b|\bcategory\b|bauart/],
@@ -252,21 +252,28 @@ export function headerNamesInputPower(header: string): boolean {
   return headerPowerKind(header) === "input";
 }
 
+/** A litre as headers write it: l, lit, ltr, liter(s), litre(s), or dm3 (1 dm³ = 1 L, SI Brochure). */
+const LITRE = String.raw`(?:\b(?:l|lit|ltr|liters?|litres?)|(?<![a-z])dm3)\s*\/\s*`;
+const LITRES_PER_S = new RegExp(String.raw`${LITRE}s(ec)?\b|\blps\b|\bls\b`);
+const LITRES_PER_MIN = new RegExp(String.raw`${LITRE}min\b|\blpm\b`);
+const LITRES_PER_H = new RegExp(String.raw`${LITRE}h(r|our)?\b|\blph\b`);
+
 /** Unit written in the (normalised, qualifier-free) header for this field, or null when none is written (or a refused word overrides it). */
 export function detectUnit(field: Field, norm: string): Unit | null {
   if (field !== "ignore" && (NUMERIC_FIELDS as readonly string[]).includes(field) && refusedBefore(field as NumericField, norm)) return null;
   switch (field) {
     case "flow":
     case "minflow":
-      if (/m3\s*\/\s*s(ec)?\b/.test(norm)) return "m3/s";
-      if (/(?:m3|cu\.?\s*m|cbm)\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";
-      if (/m3\s*\/\s*min\b/.test(norm)) return "m3/min";
-      if (/m3\s*\/\s*(?:d|day)\b/.test(norm)) return "m3/d";
+      // m3 not inside dm3 (a cubic decimetre is a litre, SI Brochure: read below as l/…); m3s, ls as our format spells units (flow_m3h)
+      if (/(?<![a-z])m3\s*\/\s*s(ec)?\b|\bm3s\b/.test(norm)) return "m3/s";
+      if (/(?<![a-z])(?:m3|cu\.?\s*m|cbm)\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";
+      if (/(?<![a-z])m3\s*\/\s*min\b/.test(norm)) return "m3/min";
+      if (/(?<![a-z])m3\s*\/\s*(?:d|day)\b/.test(norm)) return "m3/d";
       // gallons: the US gallon unless the header says imperial, in any word order (the refusal above catches both at once)
       if (GALLONS_PER_MINUTE.test(norm)) return IMPERIAL_MARK.test(norm) ? "imp gpm" : "gpm";
-      if (/\bl\s*\/\s*s(ec)?\b|\blps\b/.test(norm)) return "l/s";
-      if (/\bl\s*\/\s*min\b|\blpm\b/.test(norm)) return "l/min";
-      if (/\bl\s*\/\s*h(r|our)?\b|\blph\b/.test(norm)) return "l/h";
+      if (LITRES_PER_S.test(norm)) return "l/s";
+      if (LITRES_PER_MIN.test(norm)) return "l/min";
+      if (LITRES_PER_H.test(norm)) return "l/h";
       return null;
     case "head":
     case "npshr":

@@ -79,3 +79,19 @@ export function unknownUnitProblems(sniff: Pick<SniffResult, "unitsRow" | "heade
     return [{ row: row.line, column: header, reason, severity: "warning" as const, code: "mapping" as const, curveKey: null }];
   });
 }
+
+/**
+ * A row under a header written again mid-file that is a units row whose every unit is the unit its column is read in
+ * (",rpm,mm,m3/h,m,%,kW,m" under columns read in those units): skipped with the header (index.ts). A unit another than the
+ * column's ("l/s" under a flow read in m³/h) is not skipped: read as data, its cells are named, so rows in other units below
+ * it are never read silently in the first header's units.
+ */
+export function unitsRowAgrees(cells: readonly string[], mapping: Mapping): boolean {
+  if (unitsRowOf(cells) === null) return false;
+  return cells.every((cell, i) => {
+    if (cell.trim() === "") return true;
+    const col = mapping.columns.find((c) => c.index === i);
+    if (!col || col.field === "ignore" || !(NUMERIC_FIELDS as readonly string[]).includes(col.field)) return isUnknownUnitCell(cell);
+    return detectUnit(col.field, normaliseHeader(cell)) === col.unit;
+  });
+}

@@ -43,7 +43,8 @@ import { hasLineBreak, textCell } from "./text-cells";
 import { besideReason, blankKeyRuns, rowModel, type KeyColumn } from "./blank-keys";
 import { MinFlowCells } from "./min-flow";
 import { strayKeyProblems, type KeyRun } from "./stray-keys";
-import { checkCurve, WATER_20C_DENSITY, type Building } from "./curve-sequence";
+import { checkCurve, type Building } from "./curve-sequence";
+import { DEFAULT_POWER_DENSITY } from "../../engine/pumpCurve.ts";
 import { qt } from "../../engine/quantityText.ts"; // quantities in problem texts: rendered in the reader's units
 
 // The output schemas (the service re-checks before it writes) live in curve-schema.ts.
@@ -92,14 +93,14 @@ export interface ValidateOptions {
    * drop-points: a curve is imported when it keeps at least 3 good points; the bad ones are dropped and listed.
    */
   policy?: Policy;
-  /** Fluid density for the η = ρgQH/P consistency check, kg/m³ (default: water at 20 °C, 998.2). */
+  /** Fluid density for the η = ρgQH/P consistency checks, kg/m³ (default: 1000, the engine's DEFAULT_POWER_DENSITY, which it reads power columns at). */
   density?: number;
 }
 
 
 export function validateLongRows(rows: LongRow[], opts: ValidateOptions): ValidationResult {
   const problems: Problem[] = [];
-  const density = opts.density ?? WATER_20C_DENSITY;
+  const density = opts.density ?? DEFAULT_POWER_DENSITY;
   const curves = new Map<string, Building>();
   const order: string[] = [];
   const lastKeyInBlock = new Map<number, string>();
@@ -288,7 +289,11 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
     b.rows.push({ line: lr.line, point, flowColumn: lr.cells.flow!.column, headColumn: lr.cells.head!.column, effRaw: lr.cells.efficiency?.raw, powerRaw: lr.cells.power?.raw });
   }
 
-  for (const p of strayKeyProblems(keyRuns)) add(p.row, p.column, p.code, p.reason, p.curveKey);
+  const strayCurves = new Set<string>(); // runs of 3 rows or more read as a mistyped key (stray-keys.ts): kept out under either policy
+  for (const p of strayKeyProblems(keyRuns)) {
+    add(p.row, p.column, p.code, p.reason, p.curveKey);
+    if (p.own) strayCurves.add(p.curveKey);
+  }
   // per-curve sequence checks (curve-sequence.ts)
   const curveSets: CurveSet[] = [];
   for (const key of order) {
@@ -303,7 +308,7 @@ export function validateLongRows(rows: LongRow[], opts: ValidateOptions): Valida
   // unit or values are wrong), or that rises along most of its length (curve-rising: the curve is wrong), is kept out (the later copy of a duplicate is never built).
   const setWide = (code: ProblemCode) => code === "too-few-points" || code === "efficiency-implausible" || code === "power-implausible" || code === "min-flow" || code === "curve-rising";
   const badKeys = new Set(
-    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code))).map((p) => p.curveKey!),
+    problems.filter((p) => p.severity === "error" && p.curveKey && (policy === "skip-curves" || setWide(p.code) || strayCurves.has(p.curveKey))).map((p) => p.curveKey!),
   );
   for (const c of curveSets) c.ok = !badKeys.has(c.key);
   problems.sort((a, b) => a.row - b.row);

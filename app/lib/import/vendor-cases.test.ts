@@ -124,17 +124,17 @@ describe("P, η, Q, H consistency (η = ρgQH/P)", () => {
   it("flags the one row whose power is 30 % high, with both efficiencies", () => {
     const a = analyseCsv(fixture("consistency.csv"));
     expect(a.result.problems.map((p) => [p.row, p.code, p.severity])).toEqual([[6, "inconsistent", "warning"]]); // source: consistency.csv line 6 (power × 1.3)
-    // source: definition η = ρgQH/P, 998.2 × 9.80665 × (40/3600) × 20.4 / 4242 W = 0.5230
+    // source: definition η = ρgQH/P, 1000 × 9.80665 × (40/3600) × 20.4 / 4242 W = 0.5240 (ρ: the engine's DEFAULT_POWER_DENSITY)
     expect(a.result.problems[0].reason).toContain("68 %");
-    expect(a.result.problems[0].reason).toContain("52.3");
+    expect(a.result.problems[0].reason).toContain("52.4");
     expect(a.result.curveSets[0].ok).toBe(true); // a warning does not keep the curve out
   });
   it("flips at 3 points of efficiency", () => {
-    // row: Q 36 m³/h = 0.01 m³/s, H 10 m, P 1000 W → ρgQH/P = 998.2 × 9.80665 × 0.01 × 10 / 1000 = 0.97891 (definition)
-    const t = (eff: string) => `Model,Speed (rpm),Flow (m3/h),Head (m),Efficiency (%),Power (kW)\nA,2900,0,12,0,0.5\nA,2900,36,10,${eff},1\nA,2900,40,9,,\n`;
+    // row: Q 36 m³/h = 0.01 m³/s, H 10 m, P 1020 W → ρgQH/P = 1000 × 9.80665 × 0.01 × 10 / 1020 = 0.96144 (definition; ρ the engine's, 1000)
+    const t = (eff: string) => `Model,Speed (rpm),Flow (m3/h),Head (m),Efficiency (%),Power (kW)\nA,2900,0,12,0,0.5\nA,2900,36,10,${eff},1.02\nA,2900,40,9,,\n`;
     const codes = (eff: string) => analyseCsv(t(eff)).result.problems.map((p) => p.code);
-    expect(codes("95")).toEqual([]); // 97.891 − 95 = 2.89 points: within 3
-    expect(codes("94.8")).toEqual(["inconsistent"]); // 3.09 points: over 3
+    expect(codes("93.2")).toEqual([]); // 96.144 − 93.2 = 2.94 points: within 3
+    expect(codes("93.1")).toEqual(["inconsistent"]); // 3.04 points: over 3
   });
 });
 
