@@ -6,7 +6,7 @@
 // at 1, the POR), and the speed solve's "already at its highest ratio" the same. Check values: the rules (search.ts's
 // 5 % default, common practice); the curve is invented, the system a flat static head through the duty point (geometry).
 import { describe, expect, it } from "vitest";
-import { createPumpCurve, headAt, judgeCandidate, searchDuty, solveOperatingPoint } from "./index.ts";
+import { createPumpCurve, headAt, judgeCandidate, searchDuty, solveOperatingPoint, speedForDuty, trimForDuty } from "./index.ts";
 import { LIMIT_ROUNDING } from "./limitText.ts";
 
 const M3H = 1 / 3600; // m³/s per m³/h
@@ -35,6 +35,17 @@ describe("direct at the duty head: the curve 1 part in 10⁸ or less under it is
       expect([off, v?.status]).toEqual([off, "meets"]);
     }
   });
+});
+
+describe("the candidate's own solve (speedForDuty, trimForDuty) at full speed or impeller: the same allowance", () => {
+  // What the row is judged by once added with speed or trim (lib/projects/candidate-solve.ts): at the duty head the search
+  // finds at 100 %, the ratio 1; further under, no ratio (it was 1e-9: 5e-9 under "could not be solved").
+  for (const [off, ok] of [[1e-12, true], [0.5 * LIMIT_ROUNDING, true], [2 * LIMIT_ROUNDING, false]] as const)
+    it(`curve at H_d × (1 − ${off}): ${ok ? "ratio 1" : "duty above the curve"}`, () => {
+      const duty = { flow: qd, head: h1 / (1 - off) };
+      for (const sol of [speedForDuty(curve, duty, { min: 0.3, max: 1 }), trimForDuty(curve, duty)])
+        expect([sol.status, sol.ratio]).toEqual(ok ? ["ok", 1] : ["duty-above-curve", null]);
+    });
 });
 
 describe("direct at H_d × (1 + 5 %): within 1 part in 10⁸ over it still direct, further over it trimmed", () => {

@@ -263,10 +263,11 @@ function scaleSolver(idx: SearchIndex, qd: number, hd: number) {
     if (!(sMin <= sMax)) return null;
     at.e = e; at.k = k; at.qMin = qMin; at.qMax = qMax;
     const fHi = f(sMax);
-    // At an end of the ratios within LIMIT_ROUNDING of the duty head: that end, as the direct fit's allowance (was 1e-9).
+    // At the highest ratio within LIMIT_ROUNDING of the duty head: that ratio, as the direct fit's allowance (was 1e-9:
+    // a curve 5e-9 under the duty head was direct and not "speed" at 100 %); affinity.ts `solveRatio` the same.
     if (Math.abs(fHi) <= LIMIT_ROUNDING * hd) return sMax;
     const fLo = f(sMin);
-    if (Math.abs(fLo) <= LIMIT_ROUNDING * hd) return sMin;
+    if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
     if (fLo * fHi < 0) {
       const r = brent(f, sMin, sMax, 1e-12);
       return r ? r.x : null;
