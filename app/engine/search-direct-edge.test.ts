@@ -56,3 +56,24 @@ describe("direct at H_d × (1 + 5 %): within 1 part in 10⁸ over it still direc
       expect(found(h1 / 1.05 / (1 + off))).toEqual([want]);
     });
 });
+
+describe("every demo curve set (fixtures/demo, invented) at three duty flows: direct to 1 part in 10⁸ at both ends", () => {
+  it("the curve's own head at the duty × (1 ± 1e-12, ± 5e-9) direct, × (1 ± 2e-8) past either end not", async () => {
+    const { demoCurveInputs } = await import("./test/demoCurves");
+    const wrong: string[] = [];
+    for (const d of demoCurveInputs()) {
+      const c = createPumpCurve(d.curve), set = [{ id: d.id, curve: d.curve }];
+      for (const f of [0.3, 0.6, 0.9]) {
+        const q = c.flowMin + f * (c.flowMax - c.flowMin), h = headAt(c, q) as number;
+        const direct = (hd: number) => searchDuty(set, { flow: q, head: hd }, { methods: ["direct"] }).candidates.length === 1;
+        for (const off of [1e-12, 0.5 * LIMIT_ROUNDING]) {
+          if (!direct(h / (1 - off))) wrong.push(`${d.id} at ${f}: 1 − ${off} under the duty head not direct`);
+          if (!direct(h / 1.05 / (1 + off))) wrong.push(`${d.id} at ${f}: 1 + ${off} over the top not direct`);
+        }
+        if (direct(h / (1 - 2 * LIMIT_ROUNDING))) wrong.push(`${d.id} at ${f}: 2e-8 under the duty head direct`);
+        if (direct(h / 1.05 / (1 + 2 * LIMIT_ROUNDING))) wrong.push(`${d.id} at ${f}: 2e-8 over the top direct`);
+      }
+    }
+    expect(wrong).toEqual([]);
+  });
+});
