@@ -11,8 +11,8 @@
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, evalCubic, sampleCurve, solveOperatingPoint, type PumpCurve } from "~/engine";
 import { demoCurveInputs } from "~/engine/test/demoCurves";
-import { crossingOf, interpolateAt } from "~/components/chart/curves";
-import { TOUCH_GAP } from "./curveTouch.ts";
+import { crossingOf, interpolateAt } from "./curves.ts";
+import { TOUCH_GAP } from "~/engine/curveTouch";
 
 const demo = demoCurveInputs().slice(0, 24).map((d) => ({ id: d.id, c: createPumpCurve(d.curve) }));
 const sampled = (c: PumpCurve) => { const s = sampleCurve(c, 41); return s.flows.map((flow, i) => ({ flow, y: s.head[i] })); };
