@@ -14,6 +14,7 @@ import { EngineInputError, requireFinite, requireFiniteResult, requirePositive, 
 import { evalCubic, type MonotoneCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { brent } from "./roots.ts";
+import { LIMIT_ROUNDING } from "./limitText.ts";
 import { fmtNumExact, fmtPct, fmtPctExact, fmtPctLimit, qt, qtPair } from "./quantityText.ts";
 
 /** Impeller trim law. */
@@ -206,7 +207,9 @@ function solveRatio(c: PumpCurve, qd: number, hd: number, k: number, lo: number,
   const atRoot = (v: number) => Math.abs(v) <= 1e-9 * hd;
   const N = 48;
   let prevS = sMax, prevF = f(sMax);
-  if (atRoot(prevF)) return { status: "ok", ratio: sMax };
+  // At the highest ratio (full speed or impeller) within LIMIT_ROUNDING (1 part in 10⁸) of the duty head: that ratio, the
+  // search's direct fit's allowance (search.ts); was 1e-9, so a curve 5e-9 under the head "could not be solved".
+  if (Math.abs(prevF) <= LIMIT_ROUNDING * hd) return { status: "ok", ratio: sMax };
   for (let i = 1; i <= N; i++) {
     const s = i === N ? sMin : sMax - ((sMax - sMin) * i) / N;
     const fs = f(s);

@@ -62,10 +62,10 @@ export function coincideRuleText(share: number): string {
 /**
  * The meetings of a pump curve and a system curve from samples of g = pump head − system head (see the file's comment):
  * a sample within LAST_POINT_MATCH of the pump's head is a meeting there (a run of them a stretch), a sign change between
- * samples a crossing (Brent), dips and crossings a rounding-level apart touches (`findTouches`, TOUCH_GAP); then each touch
- * and stretch is judged by the flows about it where the heads stay within TOUCH_GAP of the pump's head: over COINCIDE_SHARE
- * of the published flows (the samples' first to last) or more, the curves coincide there (a stretch; any meeting inside it
- * is part of it); less, a touch (a stretch's sides the same) or a crossing. Before, a stretch within 1e-8 of the head but
+ * samples a crossing (Brent), dips and crossings a rounding-level apart touches (`findTouches`, TOUCH_GAP); then each
+ * meeting — crossing, touch and stretch — is judged by the flows about it where the heads stay within TOUCH_GAP of the
+ * pump's head: over COINCIDE_SHARE of the published flows (the samples' first to last) or more, the curves coincide there (a
+ * stretch; any meeting inside it is part of it); less, a touch (a stretch's sides the same) or a crossing. Before, a stretch within 1e-8 of the head but
  * not 1e-12 was one "touch", and a run of samples within 1e-12 a stretch however short.
  * @param s g (m³/s → m, or one flow and one head unit throughout), the sample flows `qs` ascending and g there `gs` (with
  *   the first- and last-point rules applied), the pump's head (flow → head), the flow tolerance `xtol` and Brent's
@@ -109,7 +109,7 @@ export function meetingsOf(s: { g: (q: number) => number; qs: number[]; gs: numb
   return { roots, afterSign, fromRest, iterations, near };
 }
 
-/** Each touch and stretch judged by the flows about it within TOUCH_GAP of the pump's head (meetingsOf), in place. */
+/** Each meeting judged by the flows about it within TOUCH_GAP of the pump's head (meetingsOf), in place. */
 function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: number[]; gs: number[]; pumpHead: (q: number) => number; xtol: number },
   near: (i: number) => boolean, sampleInGap: (i: number) => boolean): void {
   const { g, qs, gs } = s;
@@ -145,10 +145,16 @@ function judgeCoincidence(roots: Root[], s: { g: (q: number) => number; qs: numb
     }
     i = j;
   }
+  const half = (COINCIDE_SHARE / 2) * span;
   for (const r of roots.slice(0, judged)) {
-    if (r.kind === "cross") continue;
+    // A crossing by the same rule (before, never judged: a crossing within the gap over 5 % of the flows was one point, a
+    // touch's over 1 % coincident). Its flows within the gap reach COINCIDE_SHARE only if they reach half of it either
+    // side, so one of the two flows there within the gap: without, it stays a crossing (two evaluations, not a search).
+    if (r.kind === "cross" && !(span > 0 && [r.x - half, r.x + half].some((q) => q >= qs[0] && q <= qs[qs.length - 1] && inGap(q)))) continue;
     const lo = edge(r.x, -1), hi = edge(r.xEnd ?? r.x, 1);
-    r.share = span > 0 ? (hi - lo) / span : 0;
+    const share = span > 0 ? (hi - lo) / span : 0;
+    if (r.kind === "cross" && share < COINCIDE_SHARE) continue;
+    r.share = share;
     r.lo = lo; r.hi = hi;
     if (r.share >= COINCIDE_SHARE) {
       if (r.xEnd === undefined) { r.x = lo; r.xEnd = hi; r.fx = g(lo); }

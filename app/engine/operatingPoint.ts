@@ -29,7 +29,7 @@ import { evalCubic } from "./interp.ts";
 import { createPumpCurve, ensurePumpCurve, type PumpCurve, type PumpCurveInput, type PumpPoint } from "./pumpCurve.ts";
 import { fluidAt } from "./fluids.ts";
 import { prepareSystem, systemHeadFunction, type PreparedSystem, type SystemCase, type SystemSpec } from "./system.ts";
-import { qt, qtPair } from "./quantityText.ts";
+import { fmtPctLimit, pastBelow, qt, qtExact, qtLimit, qtPair } from "./quantityText.ts";
 import { LIMIT_ROUNDING } from "./limitText.ts";
 import { coincideRuleText, crossingFromRest, LAST_POINT_MATCH, meetingsOf } from "./meetings.ts";
 
@@ -99,6 +99,9 @@ const MAX_SUBDIVISIONS = 10_000;
  * falls back to bisection (see roots.ts), so a cap past 10 000 only hides a typo (NaN, Infinity or 2.5 were taken before).
  */
 const MAX_ITERATIONS = 10_000;
+
+/** Share of the curve's last published flow (dimensionless) from which an operating point is at its runout end: 98 % (common practice, from memory). */
+export const RUNOUT_SHARE = 0.98;
 
 /**
  * Pump head − system head at the pump curve's last point, with the last-point rule: heads apart by at most LAST_POINT_MATCH
@@ -250,8 +253,10 @@ function solveInner(
     warnings.push({ code: "system-curve-jump",
       message: `the pump and system curves do not meet at ${qt("flow", op.flow)}: the system's head jumps there from ${qt("head", systemHead(op.flow - d))} to ${qt("head", systemHead(op.flow + d))} (friction at the laminar–turbulent change) and the pump's ${qt("head", op.head)} lies between; the flow will not settle steadily near this point` });
   }
-  if (op.flow >= c.flowMax * 0.98 && c.flowMax > 0) {
-    warnings.push({ code: "near-curve-end", message: "operating point is at the far end of the published curve (runout)" });
+  // Runout: at or past 98 % of the last published flow to 1 part in 10⁸ (pastBelow; before, none: 1e-12 either side flipped it).
+  const runoutFrom = c.flowMax * RUNOUT_SHARE;
+  if (c.flowMax > 0 && !pastBelow(op.flow, runoutFrom)) {
+    warnings.push({ code: "near-curve-end", message: `operating point at ${qtExact("flow", op.flow, [runoutFrom])} is at the far end of the published curve (runout): at or past ${fmtPctLimit(RUNOUT_SHARE)} of its last published flow ${qt("flow", c.flowMax)}, ${qtLimit("flow", runoutFrom, [op.flow])} (to 1 part in 10⁸)` });
   }
   // Dead-head (common practice, from memory): at zero flow the pump only churns the liquid, which heats; pumps have a
   // minimum continuous flow (the maker's), and running below it damages them.

@@ -5,7 +5,8 @@
  *    keeps an envelope (flow range, largest head) per set.
  * 2. `searchDuty` rejects by envelope first (duty flow beyond the largest reachable flow, or
  *    duty head above the largest reachable head), then evaluates H(Q_duty) and decides:
- *    `direct` when the curve passes within [H_d, H_d·(1 + headTolerance)] at the duty flow;
+ *    `direct` when the curve passes within [H_d, H_d·(1 + headTolerance)] at the duty flow, each end to 1 part in 10⁸
+ *    (LIMIT_ROUNDING, limitText.ts `insideEnds`: the allowance of the search's NPSH cut and POR too);
  *    otherwise `trim` (linear or square law, approximate) or `speed` (affinity laws) when a
  *    ratio within the limits puts the curve through the duty point (first feasible in
  *    `methods` order, default direct → trim → speed).
@@ -17,7 +18,7 @@
 import { EngineInputError, requireFiniteResult, requirePositive, requireNonNegative, type EngineWarning } from "./errors.ts";
 import { brent } from "./roots.ts";
 import { G0 } from "./units.ts";
-import { insideEnds } from "./limitText.ts";
+import { insideEnds, LIMIT_ROUNDING } from "./limitText.ts";
 import { POR_FRACTION } from "./pumpCurve.ts";
 import { LIMIT_ROUNDOFF, MAX_TRIM_FRACTION, type TrimLaw } from "./affinity.ts";
 import { evalNpshrPacked, evalPacked, prepareSearchIndex, type CurveSet, type SearchIndex } from "./searchIndex.ts";
@@ -28,7 +29,7 @@ export type { CurveSet, SearchIndex } from "./searchIndex.ts";
 
 /** Search options. Ratios and tolerances are dimensionless fractions. */
 export interface SearchOptions {
-  /** Direct fit when H(Q_d) is within [H_d, H_d·(1 + headTolerance)] (default 0.05). */
+  /** Direct fit when H(Q_d) is within [H_d, H_d·(1 + headTolerance)], each end to 1 part in 10⁸ (default 0.05). */
   headTolerance?: number;
   /** Methods tried, in order (default ["direct", "trim", "speed"]). */
   methods?: readonly ("direct" | "trim" | "speed")[];
@@ -142,7 +143,8 @@ export function searchDuty(
     for (let mi = 0; mi < methods.length; mi++) {
       const m = methods[mi];
       if (m === "direct" && useDirect) {
-        if (h1 !== null && h1 >= hd && h1 <= hdHigh) { method = 0; break; }
+        // Each end to LIMIT_ROUNDING (before, none: 1e-12 under H_d was "speed" at 100 % or dropped, 1e-12 over the top trimmed).
+        if (h1 !== null && insideEnds(h1, hd, hdHigh)) { method = 0; break; }
       } else if (m === "trim" && useTrim) {
         if ((h1 !== null && h1 > hd) || (h1 === null && qd < fMin[e])) {
           const r = solveScale(e, k, trimMinRatio, 1);
@@ -261,7 +263,9 @@ function scaleSolver(idx: SearchIndex, qd: number, hd: number) {
     if (!(sMin <= sMax)) return null;
     at.e = e; at.k = k; at.qMin = qMin; at.qMax = qMax;
     const fHi = f(sMax);
-    if (Math.abs(fHi) <= 1e-9 * hd) return sMax;
+    // At the highest ratio within LIMIT_ROUNDING of the duty head: that ratio, as the direct fit's allowance (was 1e-9:
+    // a curve 5e-9 under the duty head was direct and not "speed" at 100 %); affinity.ts `solveRatio` the same.
+    if (Math.abs(fHi) <= LIMIT_ROUNDING * hd) return sMax;
     const fLo = f(sMin);
     if (Math.abs(fLo) <= 1e-9 * hd) return sMin;
     if (fLo * fHi < 0) {

@@ -9,7 +9,7 @@
 // Judged at each edge of the band (candidate-judgement.ts bandEdges), each warning with its numbers.
 import { bandEdges } from "./candidate-judgement";
 import { combinePumps, solveOperatingPoint, systemHeadFunction, type PreparedSystem, type PumpCurve } from "~/engine";
-import { qt, qtExact, qtLimit } from "~/engine/quantityText";
+import { pastAbove, qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 type StartCtx = {
   mode: "open" | "closed-loop";
@@ -42,7 +42,10 @@ function stagedAt(ctx: StartCtx, at: string, sys: (q: number) => number): Staged
   for (let k = 1; k < ctx.n; k++) {
     const op = solveOperatingPoint(k === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "parallel", duty: k }).curve, sys);
     if (op.head == null || op.flow == null) return null; // k pumps do not run here: the band says why
-    if (op.head > shutoff) return { at, running: k, of: ctx.n, heldHead: op.head, shutoffHead: shutoff, flow: op.flow };
+    // Above it by more than LIMIT_ROUNDING (1 part in 10⁸, engine limitText.ts `pastAbove`): within it the held head is at
+    // the shut-off head, as the solver's start rule takes a shut-off head equal to the system's to rounding (it starts,
+    // at zero flow); before, a held head 1e-12 above the shut-off was "cannot open" and 1e-12 below was not.
+    if (pastAbove(op.head, shutoff)) return { at, running: k, of: ctx.n, heldHead: op.head, shutoffHead: shutoff, flow: op.flow };
   }
   return null;
 }
@@ -82,7 +85,7 @@ export function arrangementStartWarnings(ctx: StartCtx, staged: readonly StagedS
       const own = qtLimit("head", shutoffHead, g.map((s) => s.heldHead)); // never read as equal to a held head beside "above"
       const where = g.length === 1 ? `At ${g[0].at}, with` : `At both edges of the band, with`;
       const holds = g.length === 1 ? held[0] : listed(g.map((s, i) => `${held[i]} (${s.at})`));
-      return `${where} ${running} pump${running > 1 ? "s" : ""} running in parallel the system holds ${holds}, above one pump's shut-off head ${own}: pump ${running + 1} of ${n}, started then, cannot open its check valve, so only ${running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running)`;
+      return `${where} ${running} pump${running > 1 ? "s" : ""} running in parallel the system holds ${holds}, above one pump's shut-off head ${own}: pump ${running + 1} of ${n}, started then, cannot open its check valve, so only ${running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running; above its shut-off head by more than 1 part in 10⁸)`;
     });
   }
   const left = n - 1;

@@ -114,7 +114,7 @@ describe("C: a band edge's own cautions reach the candidate's warnings, naming t
   it("12.05 m static: at least lift the pump runs at ≥ 98 % of the curve's last flow; the runout caution names that edge", () => {
     const e = at(12.05);
     expect(e.band[0].flow! / 0.03).toBeGreaterThan(0.98);
-    expect(e.warnings).toContain("At least lift, new pipe: operating point is at the far end of the published curve (runout)"); // old code: dropped
+    expect(e.warnings.map(inSI)).toContain("At least lift, new pipe: operating point at 108 m³/h is at the far end of the published curve (runout): at or past 98 % of its last published flow 108 m³/h, 106 m³/h (to 1 part in 10⁸)"); // old code: dropped; then without its rule and numbers
   });
   it("the flip: 16 m static at least lift is well inside the curve: no runout caution", () => {
     const e = at(16);

@@ -22,7 +22,7 @@ export type StagedShortfall = StagedStart & {
 };
 
 export const STAGED_START_RULE =
-  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is above its shut-off head; the duty is not met that way when those running deliver less than duty × (1 − minus tolerance), by more than the verdict's 1 part in 10⁶ (common practice)";
+  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is above its shut-off head by more than 1 part in 10⁸; the duty is not met that way when those running deliver less than duty × (1 − minus tolerance), by more than the verdict's 1 part in 10⁶ (common practice)";
 
 /**
  * The staged starts that leave the duty unmet: those running deliver less than duty × (1 − minus tolerance) by more than
