@@ -8,6 +8,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { CandidateEnergyPanel, energyRows, NO_PRICE_WORDS } from "./CandidateEnergy";
 import { SelectionEnergy } from "./SelectionEnergy";
+import { LifeCycleChart } from "./LifeCycleChart";
 import { moneyText } from "./energy-numbers";
 import { fixtureEnergy } from "~/lib/projects/energy-fixture";
 import { SI_UNITS, US_UNITS } from "~/lib/shared/units";
@@ -52,5 +53,23 @@ describe("a line with no purchase price is marked as the table marks it; the fig
   it("the report's chart marks it too", () => {
     const r = text(renderToStaticMarkup(createElement(SelectionEnergy, { c: { id: 7, label: "Pump B", energy: noPrice }, unitSystem: SI_UNITS, currency: "EUR" })));
     expect(r).toContain(`Pump B (${NO_PRICE_WORDS}): ${moneyText(noPrice.lcc!.total, "EUR")}`);
+  });
+});
+
+describe("the chart's cost axis labels each tick with the digits that tell it apart (common practice for a chart axis)", () => {
+  const yLabels = (cumulative: number[]) =>
+    [...renderToStaticMarkup(createElement(LifeCycleChart, { series: [{ id: 1, label: "A", cumulative }], currency: "EUR", title: "t" })).matchAll(/text-anchor="end"[^>]*>([^<]*)</g)].map((m) => m[1]);
+  it("a life-cycle cost of 0 (no purchase price, every hour at 0 % flow): ticks 0 to 1 by 0.2 read as such, not 0 0 0 1 1 1", () => {
+    const e = fixtureEnergy({ energy: { control: "fixed-speed", profile: [{ flowFraction: 0, hours: 8784 }], years: 15, escalation: 0.03, discountRate: 0.05 } }, null);
+    expect(e.lcc!.total).toBe(0); // no demand: pump stopped, 0 kWh; no price
+    expect(yLabels(e.lcc!.cumulative)).toEqual(["0.0", "0.2", "0.4", "0.6", "0.8", "1.0"]);
+  });
+  it("a small cost (0.27 after 3 years): every label distinct and equal to its tick", () => {
+    const labels = yLabels([0, 0.1, 0.19, 0.27]);
+    expect(new Set(labels).size).toBe(labels.length);
+    expect(labels).toEqual(["0.00", "0.05", "0.10", "0.15", "0.20", "0.25", "0.30"]);
+  });
+  it("thousands keep their grouping as before: 0, 500, 1,000 … 3,000", () => {
+    expect(yLabels([2500, 2500.4, 2500.8])).toEqual(["0", "500", "1,000", "1,500", "2,000", "2,500", "3,000"]);
   });
 });
