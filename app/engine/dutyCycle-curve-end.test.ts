@@ -34,6 +34,12 @@ describe("a step on the curve's last published flow, 55 m³/h (100 m³/h × 55 %
     expect(s.speedRatio).toBeCloseTo(1, 12);
     expect(s.head).toBeCloseTo(15, 9);
   });
+  it("under a drive, where the system needs more than the pump's 15 m there (20 m): not met for its head, said with both heads, not 'past the curve's end'", () => {
+    const s = cycle({ mode: "system-curve", driveEfficiency: 0.97, systemHead: () => 20 }, 0.55).steps[0];
+    expect(s.status).toBe("beyond-curve");
+    // 1 − 15/20 = 25 % (hand)
+    expect(inSI(s.message)).toBe("at 55.0 m³/h the pump gives 15.0 m at full speed (100 %), 25.0 % below the 20.0 m the system needs there: no speed up to 100 % meets this step (the drive does not run the pump above its full speed)");
+  });
   it("flips past the allowance: 55 m³/h × (1 + 2e-8) is off the curve, said with its own decimals", () => {
     const s = cycle({ designFlow: 55 * (1 + 2e-8) * M3H }, 1).steps[0];
     expect(s.status).toBe("beyond-curve");

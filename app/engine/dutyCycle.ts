@@ -312,7 +312,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
           return none("control-below-system", `the control curve gives ${gives} at ${qt("flow", q)} but the system needs ${needs} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
-      const sol = speedForDuty(curve, { flow: flowOnCurveEnds(q, curve.flowMin * minSpeed, curve.flowMax * maxSpeed), head }, { min: minSpeed, max: maxSpeed });
+      const qOn = flowOnCurveEnds(q, curve.flowMin * minSpeed, curve.flowMax * maxSpeed); // a rounding error past an end is the end (stepFlow.ts)
+      const sol = speedForDuty(curve, { flow: qOn, head }, { min: minSpeed, max: maxSpeed });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
         // the point on the lowest-speed curve at this flow (affinity laws).
@@ -336,7 +337,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
         const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
-        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks, pumpGives) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        return none("beyond-curve", noSpeedMeets(curve, qOn, head, minSpeed, maxSpeed, asks, pumpGives) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
