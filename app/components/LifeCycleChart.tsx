@@ -20,7 +20,8 @@ export function LifeCycleChart({ series, currency, title, notDrawn = [] }: { ser
   const x = scaleLinear().domain([0, years]).range([m.left, width - m.right]);
   const y = scaleLinear().domain([0, yMax > 0 ? yMax : 1]).nice(5).range([height - m.bottom, m.top]);
   const path = line<number>().x((_, i) => x(i)).y((v) => y(v));
-  const xTicks = x.ticks(Math.min(years, 10)).filter(Number.isInteger);
+  // The period's last year always labelled (15 years ticked 0, 2 … 14 left the line's end, whose figure is read, unlabelled).
+  const xTicks = [...new Set([...x.ticks(Math.min(years, 10)).filter(Number.isInteger), years])];
   // Each cost tick with the decimals its step needs, thousands grouped (d3's tick format): whole numbers alone read
   // 0.2 and 0.4 as "0" (0 0 0 1 1 1 on a cost of 0 or a few cents).
   const yText = y.tickFormat(5, ",f");

@@ -73,3 +73,13 @@ describe("the chart's cost axis labels each tick with the digits that tell it ap
     expect(yLabels([2500, 2500.4, 2500.8])).toEqual(["0", "500", "1,000", "1,500", "2,000", "2,500", "3,000"]);
   });
 });
+
+describe("the year axis ends at the period's last year, labelled", () => {
+  const xLabels = (years: number) => {
+    const html = renderToStaticMarkup(createElement(LifeCycleChart, { series: [{ id: 1, label: "A", cumulative: Array.from({ length: years + 1 }, (_, t) => 100 + 10 * t) }], currency: "EUR", title: "t" }));
+    return [...html.matchAll(/text-anchor="middle"[^>]*>(\d+)</g)].map((m) => Number(m[1]));
+  };
+  it.each([[1, 1], [15, 15], [47, 47], [50, 50]])("%i years: the last label is year %i (where the figure beside the line is read)", (years, last) => {
+    expect(xLabels(years).at(-1)).toBe(last);
+  });
+});
