@@ -76,6 +76,26 @@ export function lccText(e: Energy | null | undefined, currency: string, rates = 
   return e?.costMissing ? `— (${e.costMissing})` : "—";
 }
 
+/**
+ * A candidate's line on the cumulative life-cycle cost chart: its label, marked as the table's row is — incomplete, and
+ * without a purchase price "energy alone" (a price of 0 is a price: nothing said), so the chart compares what the table does.
+ */
+export const lccSeriesLabel = (label: string, e: Energy, lcc: NonNullable<Energy["lcc"]>): string =>
+  `${label}${lcc.purchaseGiven ? "" : ` (${NO_PRICE_WORDS})`}${incompleteMark(e.cycle)}`;
+
+/**
+ * Why a candidate of the table has no line on the chart, in the table's words (null: drawn): no duty cycle (its error), no
+ * step counted, or no energy cost (what is not given) — every candidate is drawn or named under the chart.
+ */
+export function lccNotDrawn(e: Energy | null | undefined): string | null {
+  if (lccShown(e)) return null;
+  if (!e) return "no energy figures";
+  if (!e.cycle) return e.cycleError ?? "no duty cycle";
+  const none = noStepCounted(e.cycle);
+  if (none) return `not computed (${none})`;
+  return e.costMissing ? `no life-cycle cost (${e.costMissing})` : "no life-cycle cost";
+}
+
 /** ", 1000 h/yr": the hours a duty cycle's energy and cost count (the profile's, the same for every candidate); "" without a cycle or hours. */
 export const cycleHoursText = (cycles: readonly (Energy["cycle"] | undefined)[]): string => {
   const h = cycles.find((x) => x != null)?.totalHours;
@@ -114,8 +134,8 @@ export function CandidateEnergyPanel({ candidates, unitSystem, currency, canWrit
       <LifeCycleChart
         title="Cumulative life-cycle cost (present value) by year"
         currency={currency}
-        series={candidates.flatMap((c, i) => { const lcc = lccShown(c.energy); return lcc ? [{ id: c.id, label: `${i + 1} ${c.label}${incompleteMark(c.energy!.cycle)}`, cumulative: lcc.cumulative }] : []; })}
-        notDrawn={candidates.flatMap((c, i) => { const none = noStepCounted(c.energy?.cycle); return none ? [`${i + 1} ${c.label}: not computed (${none})`] : []; })}
+        series={candidates.flatMap((c, i) => { const lcc = lccShown(c.energy); return lcc ? [{ id: c.id, label: lccSeriesLabel(`${i + 1} ${c.label}`, c.energy!, lcc), cumulative: lcc.cumulative }] : []; })}
+        notDrawn={candidates.flatMap((c, i) => { const why = lccNotDrawn(c.energy); return why ? [`${i + 1} ${c.label}: ${why}`] : []; })}
       />
       {first ? (
         <ul className="list-disc pl-5 text-xs text-slate-600">

@@ -2,7 +2,6 @@
 // year 0 is the purchase price, each later year adds that year's discounted energy cost.
 import { scaleLinear } from "d3-scale";
 import { line } from "d3-shape";
-import { fmtInt } from "~/lib/shared/format";
 import { moneyText } from "~/components/energy-numbers";
 
 export type LifeCycleSeries = { id: number; label: string; cumulative: number[] };
@@ -21,7 +20,11 @@ export function LifeCycleChart({ series, currency, title, notDrawn = [] }: { ser
   const x = scaleLinear().domain([0, years]).range([m.left, width - m.right]);
   const y = scaleLinear().domain([0, yMax > 0 ? yMax : 1]).nice(5).range([height - m.bottom, m.top]);
   const path = line<number>().x((_, i) => x(i)).y((v) => y(v));
-  const xTicks = x.ticks(Math.min(years, 10)).filter(Number.isInteger);
+  // The period's last year always labelled (15 years ticked 0, 2 … 14 left the line's end, whose figure is read, unlabelled).
+  const xTicks = [...new Set([...x.ticks(Math.min(years, 10)).filter(Number.isInteger), years])];
+  // Each cost tick with the decimals its step needs, thousands grouped (d3's tick format): whole numbers alone read
+  // 0.2 and 0.4 as "0" (0 0 0 1 1 1 on a cost of 0 or a few cents).
+  const yText = y.tickFormat(5, ",f");
   return (
     <figure className="space-y-1">
       <svg viewBox={`0 0 ${width} ${height}`} className="w-full max-w-3xl" role="img" aria-label={title}>
@@ -30,7 +33,7 @@ export function LifeCycleChart({ series, currency, title, notDrawn = [] }: { ser
           <g key={`y${t}`}>
             <line x1={m.left} x2={width - m.right} y1={y(t)} y2={y(t)} stroke="#e2e8f0" />
             <text x={m.left - 6} y={y(t)} dy="0.32em" textAnchor="end" fontSize="11" fill="#475569">
-              {fmtInt(t)}
+              {yText(t)}
             </text>
           </g>
         ))}

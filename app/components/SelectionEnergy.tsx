@@ -1,6 +1,6 @@
 // The selection report's duty cycle and life-cycle cost (as frozen with the selection).
 import { lccRatesText, lccShown, noStepCounted, pumpsRunningText, type CandidateEnergy } from "~/lib/projects/energy";
-import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, cycleStaged, incompleteMark, lccText } from "~/components/CandidateEnergy";
+import { CandidateCycle, cycleBasis, cycleEnergyText, cycleHoursText, cycleStaged, lccSeriesLabel, lccText } from "~/components/CandidateEnergy";
 import { stepName } from "~/components/cycle-notes";
 import { PARALLEL_STAGING_RULE } from "~/engine";
 import { cycleFiguresBasis } from "~/lib/projects/power-basis";
@@ -48,7 +48,7 @@ export function SelectionEnergy({ c, unitSystem, currency }: { c: Cand; unitSyst
       ) : null}
       <div className="no-print space-y-2">
         <CandidateCycle c={c} n={1} unitSystem={unitSystem} currency={currency} />
-        {lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: `${c.label}${incompleteMark(e.cycle)}`, cumulative: lcc.cumulative }]} /> : null}
+        {lcc ? <LifeCycleChart title="Cumulative life-cycle cost (present value) by year" currency={currency} series={[{ id: c.id, label: lccSeriesLabel(c.label, e, lcc), cumulative: lcc.cumulative }]} /> : null}
         {noStepCounted(e.cycle) ? <p className="text-xs text-duty-ink" data-testid="lcc-not-drawn">Life-cycle cost not drawn: not computed ({noStepCounted(e.cycle)}).</p> : null}
         <ul className="list-disc pl-5 text-xs text-slate-600">
           {e.assumptions.map((a) => (

@@ -67,6 +67,10 @@ import { stepPorWarning } from "./stepPor.ts";
 import { noSpeedMeets } from "./stepNoSpeed.ts";
 import { stepDroopWarnings } from "./stepDroop.ts";
 import { decimalSum } from "./decimalSum.ts";
+import { DRIVE_PART_LOAD, MOTOR_PART_LOAD, partLoadFactor } from "./partLoad.ts";
+import { flowOnCurveEnds } from "./stepFlow.ts";
+
+export { DRIVE_PART_LOAD, MOTOR_PART_LOAD, PART_LOAD_SOURCE } from "./partLoad.ts";
 
 export type ControlMode = "fixed-speed" | "constant-pressure" | "proportional-pressure" | "system-curve";
 
@@ -106,23 +110,6 @@ export function defaultCirculatorProfile(hoursPerYear: number): DutyStep[] {
   return CIRCULATOR_PROFILE_SHARES.map(([flowFraction, share]) => ({ flowFraction, hours: h * share }));
 }
 
-/** Piecewise-linear factor table [(x, k)] ascending in x; clamped at both ends. */
-function factor(table: readonly (readonly [number, number])[], x: number): number {
-  if (x <= table[0][0]) return table[0][1];
-  for (let i = 1; i < table.length; i++) {
-    const [x1, k1] = table[i];
-    if (x <= x1) {
-      const [x0, k0] = table[i - 1];
-      return k0 + ((k1 - k0) * (x - x0)) / (x1 - x0);
-    }
-  }
-  return table[table.length - 1][1];
-}
-/** Motor part-load factor on the rated efficiency, by load fraction (assumption stated above). */
-export const MOTOR_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.8], [0.25, 0.93], [0.5, 1], [1, 1]];
-/** Drive part-load factor on the rated drive efficiency, by load fraction (assumption stated above). */
-export const DRIVE_PART_LOAD: readonly (readonly [number, number])[] = [[0.1, 0.88], [0.25, 0.95], [0.5, 0.985], [0.75, 0.995], [1, 1]];
-export const PART_LOAD_SOURCE = "motor and drive part-load factors: common practice assumption (from memory of typical IE3 motor and PWM drive part-load data; check the makers' data)";
 
 /** `gravity-flow`: no pump head needed at the step (system head ≤ 0), pump taken as stopped, 0 kWh; met like `ok`. */
 /** `no-demand`: a step at 0 % flow — hours with the system at zero demand: the pump is stopped, 0 kWh; met like `ok`. */
@@ -291,7 +278,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     let throttled: string | null = null; // the text of a step held at its lowest on-curve speed
     if (!vfd) {
       const hSys = requireFinite("systemHead", input.systemHead(q));
-      const hp = q >= curve.flowMin && q <= curve.flowMax ? headAt(curve, q) : null;
+      const qc = flowOnCurveEnds(q, curve.flowMin, curve.flowMax); // a rounding error past an end is the end (stepFlow.ts)
+      const hp = qc >= curve.flowMin && qc <= curve.flowMax ? headAt(curve, qc) : null;
       // The flow kept apart from both ends (never "20.0 m³/h is outside … –20.0 m³/h").
       if (hp === null) return none("beyond-curve", `${qtExact("flow", q, [curve.flowMin, curve.flowMax])} is outside the pump's curve (${qtLimit("flow", curve.flowMin, [q])}–${qtLimit("flow", curve.flowMax, [q])}) at fixed speed`);
       // Below the system by more than LIMIT_ROUNDING (1 part in 10⁸, the words' digits): further under, the two heads print apart.
@@ -301,8 +289,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
       }
       head = hp;
       n = fixedRatio;
-      shaft = shaftPowerAt(curve, q, rho);
-      eta = efficiencyAt(curve, q);
+      shaft = shaftPowerAt(curve, qc, rho);
+      eta = efficiencyAt(curve, qc);
     } else {
       const f = q / qDesign;
       head = mode === "constant-pressure" ? hSet! : mode === "proportional-pressure" ? hSet! * (PROPORTIONAL_ZERO_FLOW + (1 - PROPORTIONAL_ZERO_FLOW) * f) : requireFinite("systemHead", input.systemHead(q));
@@ -324,11 +312,12 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
           return none("control-below-system", `the control curve gives ${gives} at ${qt("flow", q)} but the system needs ${needs} there, ${fmtPctExact(hSys / head - 1)} more: the flow cannot reach this step on this control curve — ${fix}`, head);
         }
       }
-      const sol = speedForDuty(curve, { flow: q, head }, { min: minSpeed, max: maxSpeed });
+      const qOn = flowOnCurveEnds(q, curve.flowMin * minSpeed, curve.flowMax * maxSpeed); // a rounding error past an end is the end (stepFlow.ts)
+      const sol = speedForDuty(curve, { flow: qOn, head }, { min: minSpeed, max: maxSpeed });
       if (sol.status === "duty-below-limit") {
         // Below the drive's lowest speed the pump is held there and the flow throttled (common practice):
         // the point on the lowest-speed curve at this flow (affinity laws).
-        const q1 = q / minSpeed;
+        const q1 = flowOnCurveEnds(q / minSpeed, curve.flowMin, curve.flowMax);
         const h1 = q1 >= curve.flowMin && q1 <= curve.flowMax ? headAt(curve, q1) : null;
         if (h1 === null) return none("below-speed-range", `${qt("flow", q)} needs less than the lowest speed ${fmtPctLimit(minSpeed)} and lies off the curve there (at ${fmtPctLimit(minSpeed)} speed it spans ${qt("flow", curve.flowMin * minSpeed)}–${qt("flow", curve.flowMax * minSpeed)})`, head);
         const asked = head;
@@ -348,7 +337,7 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
         head = hPump;
       } else if (sol.status !== "ok" || sol.ratio === null) {
         const asks = mode === "system-curve" ? "the system needs" : "the control curve asks";
-        return none("beyond-curve", noSpeedMeets(curve, q, head, minSpeed, maxSpeed, asks, pumpGives) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
+        return none("beyond-curve", noSpeedMeets(curve, qOn, head, minSpeed, maxSpeed, asks, pumpGives) ?? `${qt("flow", q)} at ${qt("head", head)}: ${sol.message}`, head);
       } else n = sol.ratio;
       const q1 = Math.min(curve.flowMax, Math.max(curve.flowMin, q / n)); // the full-speed point on the same affinity parabola
       const p1 = shaftPowerAt(curve, q1, rho);
@@ -381,8 +370,8 @@ export function dutyCycleEnergy(input: DutyCycleInput): DutyCycleResult {
     const por = stepPorWarning({ curve, index: i, flowFraction: s.flowFraction, hours: s.hours, flow: q, speed: vfd ? n : 1, vfd, units, arrangement: input.arrangement, makerMinFlow });
     if (por) warnings.push(por);
     if (zeroFlowHead !== null) warnings.push(...stepDroopWarnings({ curve, index: i, flowFraction: s.flowFraction, flow: q, speed: n, zeroFlowHead, units, fixed: !vfd }));
-    const motorEfficiency = etaM * factor(MOTOR_PART_LOAD, x);
-    const driveEfficiency = etaD === null ? null : etaD * factor(DRIVE_PART_LOAD, x);
+    const motorEfficiency = etaM * partLoadFactor(MOTOR_PART_LOAD, x);
+    const driveEfficiency = etaD === null ? null : etaD * partLoadFactor(DRIVE_PART_LOAD, x);
     const electricalPower = shaft / (motorEfficiency * (driveEfficiency ?? 1));
     return {
       ...base, head, speedRatio: n, efficiency: eta, shaftPower: shaft, loadFraction: x, motorEfficiency, driveEfficiency, electricalPower,

@@ -27,6 +27,16 @@ describe("life-cycle cost (present value, ISO 15686-5 method from memory; common
     expect(r.purchaseGiven).toBe(false);
     expect(r.total).toBeCloseTo(1234, 9);
   });
+  it("each refusal names the value refused, beside its range (our rule: a number refused is said with its numbers)", () => {
+    const ok = { purchasePrice: 0, annualEnergyKWh: 1, tariffPerKWh: 1, years: 1, escalation: 0, discountRate: 0 };
+    const said = (bad: Partial<typeof ok>) => { try { lifeCycleCost({ ...ok, ...bad }); return ""; } catch (e) { return (e as Error).message; } };
+    expect(said({ years: 51 })).toBe("years: is at most 50 (got 51)");
+    expect(said({ years: 0 })).toBe("years: must be a whole number ≥ 1 (got 0)");
+    expect(said({ escalation: -1 })).toBe("escalation: must be between −50 % and +100 % per year (got −100.0 %)");
+    expect(said({ escalation: 2 })).toBe("escalation: must be between −50 % and +100 % per year (got +200.0 %)");
+    expect(said({ discountRate: -1 })).toBe("discountRate: must be between 0 and 100 % per year (got −100.0 %)");
+    expect(said({ discountRate: 1e6 })).toBe("discountRate: must be between 0 and 100 % per year (got +100000000.0 %)");
+  });
   it("refuses years outside 1–50 or fractional, rates out of range, negative money and NaN", () => {
     const ok = { purchasePrice: 0, annualEnergyKWh: 1, tariffPerKWh: 1, years: 1, escalation: 0, discountRate: 0 };
     for (const bad of [{ years: 0 }, { years: 51 }, { years: 2.5 }, { discountRate: -0.1 }, { escalation: 2 }, { purchasePrice: -1 }, { annualEnergyKWh: NaN }, { tariffPerKWh: Infinity }]) {

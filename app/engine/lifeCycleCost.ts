@@ -104,11 +104,12 @@ export function lifeCycleCost(input: LifeCycleInput): LifeCycleResult {
   const kwh = requireNonNegative("annualEnergyKWh", input.annualEnergyKWh);
   const tariff = requireNonNegative("tariffPerKWh", input.tariffPerKWh);
   const years = requireInteger("years", input.years, 1);
-  if (years > 50) throw new EngineInputError("years", "is at most 50");
+  if (years > 50) throw new EngineInputError("years", `is at most 50 (got ${years})`);
   const e = requireFinite("escalation", input.escalation);
-  if (e < -0.5 || e > 1) throw new EngineInputError("escalation", "must be between −50 % and +100 % per year");
+  // Each refusal with the rate refused (its per cent apart from the bound crossed), as the form's words (lib/projects/lcc-ranges.ts).
+  if (e < -0.5 || e > 1) throw new EngineInputError("escalation", `must be between −50 % and +100 % per year (got ${fmtPctSignedExact(e, [e < 0 ? 0.5 : 1], true)})`);
   const d = requireFinite("discountRate", input.discountRate);
-  if (d < 0 || d > 1) throw new EngineInputError("discountRate", "must be between 0 and 100 % per year");
+  if (d < 0 || d > 1) throw new EngineInputError("discountRate", `must be between 0 and 100 % per year (got ${fmtPctSignedExact(d, [d < 0 ? 0 : 1], true)})`);
   const c1 = kwh * tariff;
   const yearly: LifeCycleResult["yearly"] = [];
   const cumulative = [purchase];

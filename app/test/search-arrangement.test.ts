@@ -182,7 +182,7 @@ describe("the search page without JavaScript", () => {
   });
   test("odd values: named in a note, one pump searched", async () => {
     const d = await load("?arrangement=parallel&pumps=12");
-    expect(d.filterNotes).toEqual(["Duty pumps must be a whole number from 2 to 8, written in digits: “12” is not, so one pump is searched."]);
+    expect(d.filterNotes).toEqual(["Duty pumps must be at most 8 (a whole number from 2 to 8): “12” is too many, so one pump is searched."]);
     expect(d.arrangement.rule).toBeNull();
   });
 });
@@ -252,11 +252,11 @@ describe("the read API's arrangement parameters", () => {
   test("odd values refused by name: 400 problem+json", async () => {
     const cases: [string, string][] = [
       ["?arrangement=ring", 'Query parameter "arrangement": Unknown arrangement “ring” (the search knows single, parallel and series).'],
-      ["?arrangement=parallel&pumps=9", 'Query parameter "pumps": Duty pumps must be a whole number from 2 to 8, written in digits: “9” is not.'],
+      ["?arrangement=parallel&pumps=9", 'Query parameter "pumps": Duty pumps must be at most 8 (a whole number from 2 to 8): “9” is too many.'],
       ["?arrangement=series&pumps=1", 'Query parameter "pumps": Duty pumps must be at least 2 (a whole number from 2 to 8): “1” is too few.'],
       ["?pumps=2", 'Query parameter "pumps": "pumps" is read with arrangement=parallel or arrangement=series only.'],
       ["?arrangement=series&pumps=2&standby=1", 'Query parameter "standby": Standby pumps “1” are counted with pumps in parallel only.'],
-      ["?arrangement=parallel&pumps=2&standby=3", 'Query parameter "standby": Standby pumps (at most the duty pumps) must be a whole number from 0 to 2, written in digits: “3” is not.'],
+      ["?arrangement=parallel&pumps=2&standby=3", 'Query parameter "standby": Standby pumps (at most the duty pumps) must be at most 2 (a whole number from 0 to 2): “3” is too many.'],
       ["?arrangement=parallel&arrangement=series", 'The query parameter "arrangement" is given more than once: give it once.'],
       ["?pump=2", "Unknown query parameter \"pump\": this address takes page, arrangement, pumps, standby, method. Answers are in SI units (see /api)."],
     ];

@@ -53,13 +53,17 @@ describe("readAdjustForm", () => {
 
 describe("readAdjustForm: duty and standby pumps are counts typed in digits (product rule; shared/decimal.ts countField, AdjustmentSchema's limits)", () => {
   // What the decimal reader made of them before: 1e0 → 1, 2,0 → 2, 2.0 → 2 (accepted as pumps).
-  it.each(["1e0", "2,0", "2.0", "0x2", "+2", "-1", "2.5", "Infinity", "abc", "9"])("%j duty pumps is an error naming the field, its range and what was typed", (typed) => {
+  it.each(["1e0", "2,0", "2.0", "0x2", "+2", "-1", "2.5", "Infinity", "abc"])("%j duty pumps is an error naming the field, its range and what was typed", (typed) => {
     const r = readAdjustForm(form({ ...base, arrangement: "parallel", dutyPumps: typed }), SI_UNITS);
     expect(r.adjustment).toBeNull();
     expect(r.error).toBe(`The number of duty pumps must be a whole number from 1 to 8, written in digits: “${typed}” is not.`);
   });
-  it.each(["1e0", "1,0", "1.0", "-1", "9"])("%j standby pumps is an error the same way (0 to 8)", (typed) => {
+  it.each(["1e0", "1,0", "1.0", "-1"])("%j standby pumps is an error the same way (0 to 8)", (typed) => {
     expect(readAdjustForm(form({ ...base, standbyPumps: typed }), SI_UNITS).error).toBe(`The number of standby pumps must be a whole number from 0 to 8, written in digits: “${typed}” is not.`);
+  });
+  it("9 duty or standby pumps, digits past 8: too many, with the range", () => {
+    expect(readAdjustForm(form({ ...base, arrangement: "parallel", dutyPumps: "9" }), SI_UNITS).error).toBe("The number of duty pumps must be at most 8 (a whole number from 1 to 8): “9” is too many.");
+    expect(readAdjustForm(form({ ...base, standbyPumps: "9" }), SI_UNITS).error).toBe("The number of standby pumps must be at most 8 (a whole number from 0 to 8): “9” is too many.");
   });
   it("0 duty pumps is below the minimum, said so; 1 to 8 and standby 0 to 8 are taken; blank is 1 duty and 0 standby", () => {
     expect(readAdjustForm(form({ ...base, dutyPumps: "0" }), SI_UNITS)).toEqual({ adjustment: null, error: "The number of duty pumps must be at least 1 (a whole number from 1 to 8): “0” is too few." });

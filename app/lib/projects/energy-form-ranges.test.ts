@@ -57,10 +57,10 @@ describe("each rate refused with its field and range, both sides of each end", (
       expect(read({ "energy.discount": typed }).errors, typed).toEqual({ "energy.discount": "Discount rate must be a number; it takes from 0 % to 100 % a year." });
     }
   });
-  it("years: 1 and 50 taken, 0 and 51 refused with the range (countField, unchanged)", () => {
+  it("years: 1 and 50 taken, 0 and 51 refused with the range, 51 as too many (countField)", () => {
     expect(read({ "energy.years": "1" }).out.years).toBe(1);
     expect(read({ "energy.years": "50" }).out.years).toBe(50);
     expect(read({ "energy.years": "0" }).errors["energy.years"]).toBe("Years must be at least 1 (a whole number from 1 to 50): “0” is too few.");
-    expect(read({ "energy.years": "51" }).errors["energy.years"]).toBe("Years must be a whole number from 1 to 50, written in digits: “51” is not.");
+    expect(read({ "energy.years": "51" }).errors["energy.years"]).toBe("Years must be at most 50 (a whole number from 1 to 50): “51” is too many.");
   });
 });

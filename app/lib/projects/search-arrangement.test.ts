@@ -31,9 +31,9 @@ describe("the page's arrangement filter", () => {
     const cases: [Record<string, string>, string, unknown][] = [
       [{ arrangement: "ring" }, "Unknown arrangement “ring” (the search knows single, parallel and series), so one pump is searched.", undefined],
       [{ arrangement: "parallel", pumps: "1" }, "Duty pumps must be at least 2 (a whole number from 2 to 8): “1” is too few, so one pump is searched.", undefined],
-      [{ arrangement: "parallel", pumps: "9" }, "Duty pumps must be a whole number from 2 to 8, written in digits: “9” is not, so one pump is searched.", undefined],
+      [{ arrangement: "parallel", pumps: "9" }, "Duty pumps must be at most 8 (a whole number from 2 to 8): “9” is too many, so one pump is searched.", undefined],
       [{ arrangement: "series", pumps: "2.5" }, "Duty pumps must be a whole number from 2 to 8, written in digits: “2.5” is not, so one pump is searched.", undefined],
-      [{ arrangement: "parallel", pumps: "2", standby: "3" }, "Standby pumps (at most the duty pumps) must be a whole number from 0 to 2, written in digits: “3” is not, so no standby pump is counted.", { arrangement: "parallel", dutyPumps: 2, standbyPumps: 0 }],
+      [{ arrangement: "parallel", pumps: "2", standby: "3" }, "Standby pumps (at most the duty pumps) must be at most 2 (a whole number from 0 to 2): “3” is too many, so no standby pump is counted.", { arrangement: "parallel", dutyPumps: 2, standbyPumps: 0 }],
       [{ arrangement: "parallel", pumps: "2", standby: "-1" }, "Standby pumps (at most the duty pumps) must be a whole number from 0 to 2, written in digits: “-1” is not, so no standby pump is counted.", { arrangement: "parallel", dutyPumps: 2, standbyPumps: 0 }],
       [{ arrangement: "series", pumps: "3", standby: "1" }, "Standby pumps “1” are counted with pumps in parallel only, so 3 duty pumps in series are searched without standby.", { arrangement: "series", dutyPumps: 3, standbyPumps: 0 }],
       [{ arrangement: "single", standby: "2" }, "Standby pumps “2” are counted with pumps in parallel only, so one pump is searched.", undefined],

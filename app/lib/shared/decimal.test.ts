@@ -133,7 +133,8 @@ describe("messages", () => {
     expect(countField(null, "n", "the count", errors, 20)).toBe(0);
     expect(errors).toEqual({});
     expect(countField("21", "n", "the count", errors, 20)).toBeNull(); // past max
-    expect(errors.n).toBe("The count must be a whole number from 0 to 20, written in digits: “21” is not.");
+    // Past max in digits: said as too many, with the range — it read "written in digits: “21” is not", a reason it is not (audit "lccedges").
+    expect(errors.n).toBe("The count must be at most 20 (a whole number from 0 to 20): “21” is too many.");
     expect(countField("0x10", "n", "the count", errors, 20)).toBeNull();
     expect(errors.n).toMatch(/“21”/); // the first message stays
     expect(countField(new Blob(["3"]), "f", "the count", errors, 20)).toBeNull(); // a file is no count

@@ -127,8 +127,8 @@ const COUNT_DIGITS = /^\d+$/;
 /**
  * One count field (fittings of a pipe run, the editor's run count, duty and standby pumps, life-cycle years) read into
  * `errors`: a whole number from `min` (default 0) to `max` written in decimal digits, whitespace around it trimmed as for
- * every field; blank (or a missing field) is `blank`. Anything else — 0x10, 1e1, 2.5, 2,0, -1, +3, Infinity, past `max`,
- * below `min` — is an error under `key` that names the field, its range and what was typed (never a silent 0 or a
+ * every field; blank (or a missing field) is `blank`. Anything else — 0x10, 1e1, 2.5, 2,0, -1, +3, Infinity, past `max`
+ * ("too many"), below `min` ("too few") — is an error under `key` that names the field, its range and what was typed (never a silent 0 or a
  * rounded or clamped count), and null. The form's maxima and minima come from its schema's limits.
  */
 export function countField(raw: unknown, key: string, label: string, errors: Record<string, string>, max: number, blank = 0, min = 0): number | null {
@@ -142,6 +142,9 @@ export function countField(raw: unknown, key: string, label: string, errors: Rec
       errors[key] ??= `${capital(label)} must be at least ${min} (a whole number from ${min} to ${max}): ${quoted(s)} is too few.`;
       return null;
     }
+    // Digits past max: too many, said so (it read "written in digits: “51” is not", a reason it is not).
+    errors[key] ??= `${capital(label)} must be at most ${max} (a whole number from ${min} to ${max}): ${quoted(s)} is too many.`;
+    return null;
   }
   errors[key] ??= `${capital(label)} must be a whole number from ${min} to ${max}, written in digits${s === null ? "." : `: ${quoted(s)} is not.`}`;
   return null;
