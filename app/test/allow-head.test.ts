@@ -58,7 +58,7 @@ describe.skipIf(!built)("Allow on the wire, every route", () => {
       if (r.path === "api/*") continue; // no route: 404 to every method
       const p = pathFor(r.path, GOOD_PARAMS[r.path]?.(owner) ?? {});
       const api = isApi(r.path);
-      const as = api ? { authorization: `Bearer ${owner.token}` } : { cookie: session };
+      const as: Record<string, string> = api ? { authorization: `Bearer ${owner.token}` } : { cookie: session };
       const t = takes(r);
       const refused = ["PUT", "PROPFIND", ...(t.post ? [] : ["POST"]), ...(t.get ? [] : ["GET"])];
       const allows: [string, string | null][] = [];
