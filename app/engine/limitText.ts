@@ -113,3 +113,13 @@ export function boundInward(text: string, v: number, side: "min" | "max" | undef
   }
   return unsignedZero(t.includes("e") ? t : t.replace(/\.(\d*?)0+$/, ".$1").replace(/\.$/, ""));
 }
+
+/**
+ * A quantity's number as shown with the true minus sign "−" (U+2212), as the per cents (pctText.ts: `fmtPct` and its kin, since helper "routeedges"), a refusal's
+ * number as typed (shared/format.ts `numberAsTyped`) and the field check's form write theirs: "−50 °C", where it read
+ * "-50 °C" (helper "numtext"). Kept here, beside the grouping, so pctText.ts can use it; quantityText.ts re-exports it. The quantity formatters (`fmtQuantity`, `fmtQuantityExact`, `fmtQuantityAboveZero`, so
+ * shared/units.ts `fmtQ` and its kin) and every rendered token; bare numbers (`fmtNum`) and CSV's numbers stay ASCII.
+ * The forms' reader takes "−" back (shared/decimal.ts).
+ * @param t a number as written (unitless)
+ */
+export const trueMinus = (t: string): string => t.replace(/^-(?=[\d.])/, "−");

@@ -66,7 +66,7 @@ describe("a per-cent value too small for the decimals: one rule, exponent form, 
     expect(fmtPctSignedExact(-1e-9, [0])).toBe("−1.00e-7 %"); // was "−under 0.000001 %"
     expect(fmtPctSignedExact(1e-9, [0.03], true)).toBe("+0.0000001 %"); // beside 3 %, 8 decimals: was "+under 0.000001 %"
     expect(fmtPctSignedExact(1e-12, [0.03], true)).toBe("+1.00e-10 %");
-    expect(fmtPctExact(-1e-12)).toBe("-1.00e-10 %");
+    expect(fmtPctExact(-1e-12)).toBe("−1.00e-10 %");
     expect(fmtPctExact(3e-8, [0.7, 1.2], 0)).toBe("0.000003 %");
     for (const x of [1e-9, -1e-9, 4.9e-9, -1e-15]) expect(fmtPctSignedExact(x, [0.03], true)).not.toMatch(/under|less/);
   });

@@ -1,7 +1,7 @@
 // Fractions written as percentages in text: for reading (`fmtPct`), beside the limits they are judged against
 // (`fmtPctExact`, `fmtPctSignedExact`) and as limits (`fmtPctLimit`, `pctLimitWithDecimals`, `fmtPctSide`). Pure; split
 // out of quantityText.ts, which re-exports every name (decision "pctlimit").
-import { MAX_SIGNIFICANT } from "./limitText.ts";
+import { MAX_SIGNIFICANT, trueMinus } from "./limitText.ts";
 
 /** Decimals of a per cent a value is read apart from zero to at least, before an exponent form (count: 0.000001 %). */
 const ZERO_PCT_DECIMALS = 6;
@@ -19,13 +19,17 @@ function mostPctDecimals(limits: readonly number[]): number {
   return m > 0 ? Math.min(20, Math.max(ZERO_PCT_DECIMALS, MAX_SIGNIFICANT - 1 - Math.floor(Math.log10(m)))) : ZERO_PCT_DECIMALS;
 }
 
+/** A per cent's digits as shown: a negative with the true minus "−" (limitText.ts `trueMinus`), a rounded zero unsigned ("-0.0" → "0.0"). */
+const shownSign = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : trueMinus(t));
+
 /**
- * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %"; "—" when missing.
+ * A fraction as a percentage for reading, e.g. 0.723 → "72.3 %", −0.05 → "−5.0 %" (the true minus, as every signed number
+ * the app shows; a value that rounds to zero unsigned, "0.0 %"); "—" when missing.
  * @param x the fraction (dimensionless)
  * @param digits decimals (count)
  */
 export function fmtPct(x: number | null | undefined, digits = 1): string {
-  return x == null || !Number.isFinite(x) ? "—" : `${(x * 100).toFixed(digits)} %`;
+  return x == null || !Number.isFinite(x) ? "—" : `${shownSign((x * 100).toFixed(digits))} %`;
 }
 
 /**
@@ -34,7 +38,7 @@ export function fmtPct(x: number | null | undefined, digits = 1): string {
  * significant digits (at least 6 decimals) — so a value judged past a limit by more than 1 part in 10⁸ (limitText.ts
  * `LIMIT_ROUNDING`) never reads as the limit ("99.96 %" beside 100 %, "3.00000006 %" beside 3 %, where 6 decimals
  * read "3.000000 %"). One rule for a value those decimals still show as zero though it is not: 3 significant digits in
- * exponent form, more while it reads as one of `against` ("2.50e-7 %", "-1.00e-7 %"; as `fmtNum`'s "4.00e-7" and
+ * exponent form, more while it reads as one of `against` ("2.50e-7 %", "−1.00e-7 %"; as `fmtNum`'s "4.00e-7" and
  * {@link fmtPctLimit}'s) — a number, never a bound in words, so a refusal or a verdict reads "not −1.00e-7 %" (it read
  * "not −under 0.000001 %").
  * @param x the fraction (dimensionless)
@@ -52,7 +56,7 @@ export function fmtPctExact(x: number | null | undefined, against: readonly numb
   const exp = (v: number, e: number) => Number((v * 100).toExponential(e));
   let e = TINY_SIGNIFICANT - 1;
   while (e < 12 && limits.some((a) => exp(a, e) === exp(x, e))) e++;
-  return `${(x * 100).toExponential(e)} %`;
+  return `${trueMinus((x * 100).toExponential(e))} %`;
 }
 
 /**
@@ -77,8 +81,8 @@ export function fmtPctSignedExact(x: number | null | undefined, against: readonl
 export function fmtPctLimit(x: number): string {
   if (!Number.isFinite(x)) return "—";
   const p = x * 100;
-  if (p !== 0 && Number(p.toFixed(ZERO_PCT_DECIMALS)) === 0) return `${p.toPrecision(TINY_SIGNIFICANT)} %`;
-  return `${String(Number(p.toPrecision(MAX_SIGNIFICANT)))} %`; // Number(): "-0" reads "0", trailing zeros dropped
+  if (p !== 0 && Number(p.toFixed(ZERO_PCT_DECIMALS)) === 0) return `${trueMinus(p.toPrecision(TINY_SIGNIFICANT))} %`;
+  return `${trueMinus(String(Number(p.toPrecision(MAX_SIGNIFICANT))))} %`; // Number(): "-0" reads "0", trailing zeros dropped
 }
 
 /**

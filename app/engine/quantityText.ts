@@ -11,8 +11,8 @@
  */
 import { fromSI, UNIT_SYSTEMS, UNITS, unitLabel, type Quantity, type UnitPreset } from "./units.ts";
 import { EngineInputError } from "./errors.ts";
-import { boundInward, groupThousands, MAX_SIGNIFICANT } from "./limitText.ts";
-export { boundInward, gradeAllows, gradeSlack, groupThousands, insideEnds, LIMIT_ROUNDING, MAX_SIGNIFICANT, pastAbove, pastBelow, THOUSANDS_SPACE } from "./limitText.ts";
+import { boundInward, groupThousands, MAX_SIGNIFICANT, trueMinus } from "./limitText.ts";
+export { boundInward, gradeAllows, gradeSlack, groupThousands, insideEnds, LIMIT_ROUNDING, MAX_SIGNIFICANT, pastAbove, pastBelow, THOUSANDS_SPACE, trueMinus } from "./limitText.ts";
 export { fmtPct, fmtPctExact, fmtPctLimit, fmtPctSide, fmtPctSignedExact, pctLimitWithDecimals } from "./pctText.ts";
 
 /**
@@ -180,15 +180,6 @@ const TINY_SIGNIFICANT = 3;
 export const LARGE_FROM = 10 ** MAX_SIGNIFICANT;
 /** "-0.000" reads as zero: drop the sign of a rounded zero. */
 const unsignedZero = (t: string) => (/^-0(\.0*)?$/.test(t) ? t.slice(1) : t);
-/**
- * A quantity's number as shown with the true minus sign "−" (U+2212), as the per cents (`fmtPctSignedExact`), a refusal's
- * number as typed (shared/format.ts `numberAsTyped`) and the field check's form write theirs: "−50 °C", where it read
- * "-50 °C" (helper "numtext"). The quantity formatters (`fmtQuantity`, `fmtQuantityExact`, `fmtQuantityAboveZero`, so
- * shared/units.ts `fmtQ` and its kin) and every rendered token; bare numbers (`fmtNum`) and CSV's numbers stay ASCII.
- * The forms' reader takes "−" back (shared/decimal.ts).
- * @param t a number as written (unitless)
- */
-export const trueMinus = (t: string): string => t.replace(/^-(?=[\d.])/, "−");
 /**
  * From this magnitude up to {@link LARGE_FROM}, in the unit shown, a number read as whole digits has them grouped in threes
  * by a narrow no-break space, as a range's end and the number refused are (limitText.ts `groupThousands`; SI Brochure 9th

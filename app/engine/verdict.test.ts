@@ -90,7 +90,7 @@ describe("numbers beside a verdict never read as the limit they were judged agai
     expect(fmtPctExact(0.97, [1])).toBe("97.0 %");
     expect(fmtPctExact(0.2999, [0.3, 1])).toBe("29.99 %");
     expect(fmtPctExact(0.69996, [0.7, 1.2], 0)).toBe("69.996 %");
-    expect(fmtPctExact(-0.00004)).toBe("-0.004 %"); // not "-0.0 %"
+    expect(fmtPctExact(-0.00004)).toBe("−0.004 %"); // not "−0.0 %" (the true minus since helper "routeedges")
     expect(fmtPctExact(NaN)).toBe("—");
     expect(fmtPctLimit(0.025)).toBe("2.5 %");
     expect(fmtPctLimit(0.011000000000000001)).toBe("1.1 %");

@@ -54,7 +54,7 @@ test("the method a resource route does not take: 405 problem+json naming the one
       const r = await call(fn as never, { path: "/x", method, cookie, params: { id: "1", photoId: "1", pictureId: "1" }, headers: { origin: "http://127.0.0.1:3999" } });
       expect(r.status, file).toBe(405);
       expect(r.headers.get("content-type"), file).toBe("application/problem+json");
-      expect(r.headers.get("allow"), file).toBe(`${allow}, OPTIONS`); // RFC 9110 §10.2.1: and OPTIONS, answered on every route
+      expect(r.headers.get("allow"), file).toBe(allow === "GET" ? "GET, HEAD, OPTIONS" : `${allow}, OPTIONS`); // RFC 9110 §10.2.1: and OPTIONS, answered on every route; §9.3.2: HEAD with GET
     }
   }
 });
@@ -132,7 +132,7 @@ test("every API route says once what it takes: its refusing loader or action is 
     expect([r.path, refusing.length], r.path).toEqual([r.path, 1]);
     const [method, fn] = refusing[0];
     const answer = await call(fn as never, { path: `/${r.path}`, method, params: { id: "1" }, headers: { origin: "http://127.0.0.1:3999" } });
-    expect([r.path, answer.status, answer.headers.get("allow")]).toEqual([r.path, 405, `${fn.allow}, OPTIONS`]); // the OPTIONS answer's Allow
+    expect([r.path, answer.status, answer.headers.get("allow")]).toEqual([r.path, 405, fn.allow === "GET" ? "GET, HEAD, OPTIONS" : `${fn.allow}, OPTIONS`]); // the OPTIONS answer's Allow (RFC 9110 §9.3.2: HEAD with GET)
     found.push(`${r.path}: ${fn.allow}`);
   }
   // The API's GET routes and POST routes (app/routes.ts; the /api page documents each).

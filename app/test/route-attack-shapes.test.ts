@@ -15,8 +15,11 @@ import { refusalAnswer } from "~/lib/shared/refusal.server";
 import { BASE, makeMember, type TestMember } from "./harness";
 import { asResponse, GOOD_PARAMS, isApi, load, paramsOf, pathFor, ROUTES, send, throughRoot, walkRecords, wrongAnswer, type Answer, type WalkRecords, type Who } from "./route-table";
 
-/** Ids the other sweeps do not send: 2^63 (one past BIGINT), 30 digits, NUL inside, dot segments, other scripts' digits. */
-const ODD_IDS = ["9223372036854775808", "1" + "0".repeat(29), "1%00", "%2e%2e", "1%2F..", "..", "%D9%A1", "%EF%BC%91", "1%20", "%201", "1_000", "0b1", "1."];
+/**
+ * Ids the other sweeps do not send: 2^63 (one past BIGINT), 30 digits, NUL inside, dot segments, other scripts' digits
+ * ("١", "٣" Arabic-Indic, "１" full-width), past a double (1e309), and 10 000 characters long (digits, letters).
+ */
+const ODD_IDS = ["9223372036854775808", "1" + "0".repeat(29), "1%00", "%2e%2e", "1%2F..", "..", "%D9%A1", "%D9%A3", "%EF%BC%91", "1%20", "%201", "1_000", "0b1", "1.", "1e309", "9".repeat(10_000), "a".repeat(10_000)];
 const NEVER = "999999999999999";
 
 let owner: WalkRecords;
@@ -65,7 +68,7 @@ test("ids past a BIGINT, with NUL or dot segments, in other scripts' digits, in 
             const a = await send(r, as, { params, path, method, ...post });
             sent++;
             const wrong = wrongAnswer(a, { api, anonymous: as === ANON, refusal: true, secret: OWNER_DATA });
-            if (wrong) fails.push(`${method} /${r.path} ${name}=${JSON.stringify(odd)} as ${as.who} → ${wrong}`);
+            if (wrong) fails.push(`${method} /${r.path} ${name}=${odd.length > 40 ? `"${odd.slice(0, 8)}…" (${odd.length} characters)` : JSON.stringify(odd)} as ${as.who} → ${wrong}`);
           }
         }
       }

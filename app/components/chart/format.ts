@@ -6,7 +6,7 @@
  * "4.20", "0.123"), a percentage to one decimal as `fmtPct`. Locale-independent (server and browser give the same text).
  */
 import { nearZeroWords, trueMinus } from "../../engine/quantityText.ts";
-import { fmtNum, fmtNumExact } from "../../lib/shared/units.ts";
+import { fmtNum, fmtNumExact, fmtPct } from "../../lib/shared/units.ts";
 
 /** A panel kind's value (display unit: efficiency in %). */
 type Kind = "head" | "efficiency" | "power" | "npsh";
@@ -26,7 +26,7 @@ export function formatValue(v: number | null | undefined): string {
  */
 export function formatKindValue(kind: Kind, v: number | null | undefined): string {
   if (kind !== "efficiency") return formatValue(v);
-  return v == null || !Number.isFinite(v) ? "—" : v.toFixed(1);
+  return v == null || !Number.isFinite(v) ? "—" : fmtPct(v / 100).replace(/ %$/, ""); // "−" and an unsigned rounded zero, as fmtPct
 }
 
 /**

@@ -117,11 +117,16 @@ export const ROUTER_METHODS: ReadonlySet<string> = new Set(["GET", "HEAD", "POST
 export type UnknownMethodAnswer = { status: 405; allow: string; detail: string } | { status: 404; detail: string } | { status: 204; allow: string };
 
 /**
- * The Allow header of every answer that carries one: the methods the route takes, and OPTIONS, which every route answers
- * (204, `unknownMethodAnswer`). RFC 9110 §10.2.1: Allow lists the methods the target resource supports, so a 405's Allow
- * and the OPTIONS answer's are the same list (helper "formedges"; the 405s left OPTIONS out until then). Each method once.
+ * The Allow header of every answer that carries one: the methods the route takes, HEAD beside GET, and OPTIONS, which every
+ * route answers (204, `unknownMethodAnswer`). RFC 9110 §10.2.1: Allow lists the methods the target resource supports, so a
+ * 405's Allow and the OPTIONS answer's are the same list (helper "formedges"; the 405s left OPTIONS out until then); §9.3.2:
+ * a resource that takes GET takes HEAD (React Router answers HEAD with the loader), and an API route's `refuseMethod("GET")`
+ * said "GET, OPTIONS" (helper "routeedges"). Each method once.
  */
-export const allowHeader = (allow: readonly string[] | string) => [...new Set([...(typeof allow === "string" ? allow.split(", ") : allow), "OPTIONS"])].join(", ");
+export const allowHeader = (allow: readonly string[] | string) => {
+  const named = (typeof allow === "string" ? allow.split(",") : [...allow]).map((m) => m.trim()).filter(Boolean);
+  return [...new Set(named.flatMap((m) => (m === "GET" ? ["GET", "HEAD"] : [m])).concat("OPTIONS"))].join(", ");
+};
 
 /**
  * The Allow of an answer to OPTIONS (`allowHeader`). One rule on every route, page or API (DEVELOPERS.md, decision
