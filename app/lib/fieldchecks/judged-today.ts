@@ -4,7 +4,8 @@
 // allowances, so where a rule changed after the check was recorded (an allowance, a bound on the readings' accuracy) the
 // stored verdict could stand beside arms that contradict it ("outside tolerance" over "head +5 % … met, at the limit").
 // The page then says both verdicts, each with its words, and how to record today's (amend: a new version). Pure.
-import { evaluateCheck, type FrozenSelection } from "./evaluate";
+import { evaluateCheck } from "./evaluate";
+import type { FrozenSelection } from "./frozen-curve";
 import type { Readings, Verdict } from "./form";
 import { verdictNote } from "./result";
 

@@ -5,6 +5,9 @@ import type { Verdict } from "./form";
 import type { PowerGrade } from "./power-grade";
 import { PUBLISHED_PART } from "./curve-ends";
 
+/** The stored result's format label (evaluate.ts writes it into every result). */
+export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
+
 export type Pt = { flow: number; y: number };
 
 export type CheckResult = {
