@@ -17,7 +17,7 @@ import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings } from "./form";
 import { powerGradeOf } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
 import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf } from "./curve-ends";
-import { FIELD_CHECK_FORMAT, type CheckResult } from "./result";
+import { FIELD_CHECK_FORMAT, MARGINAL_NOTE, type CheckResult } from "./result";
 import { crossMissWords } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
 import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
@@ -164,7 +164,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const withinWords = within && verdict === "marginal"
     ? `(${uncertaintyWords(readings, headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
     : null;
-  if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
+  if (withinWords) warnings.push(`${MARGINAL_NOTE} the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
   const q = engine.flow;
   const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;

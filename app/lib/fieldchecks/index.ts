@@ -38,3 +38,5 @@ export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, 
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
 export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";
 export { checkedHeadRefusal, headRefusal } from "./head-check";
+export { listedVerdict, verdictRule, type ListedVerdict, type RuledVerdict } from "./listed-verdict";
+export { judgeToday, ruledToday } from "./judged-today";

@@ -4,16 +4,19 @@ import { desc, eq, inArray, or, sql } from "drizzle-orm";
 import { db } from "@db/client.server";
 import { fieldChecks, projects, selections, systems, users, workspaces } from "@db/schema";
 import { readStoredSelection } from "../projects/stored-selection";
-import { judgedToday } from "./judged-today";
 import type { Viewer } from "../libraries";
-import { readStoredCheck } from "./stored-check";
+import { readStoredCheck, readStoredReadings } from "./stored-check";
+import { listedVerdict } from "./listed-verdict";
+import { frozenForToday, ruledTodayKept, type FrozenForToday } from "./today.server";
 import { MAX_PROBLEMS_LISTED } from "../projects/stored-doc";
 import { checkTimes } from "./taken-at";
 import { fieldSelection, fieldSelectionRecord, sharedProjectIds } from "./access.server";
 
 /**
  * Selections open to the viewer (shared with their workspace, and their own workspace's) and their 30 latest checks,
- * newest first by the time their readings were taken (else recorded), each with both times (taken-at.ts), as the history.
+ * newest first by the time their readings were taken (else recorded), each with both times (taken-at.ts), as the history,
+ * and the verdict the list shows (`shown`, listed-verdict.ts): today's with its rule and numbers, the stored one beside it
+ * where they differ; a check whose stored readings do not read, its stored verdict said as saved.
  */
 export async function fieldHome(viewer: Viewer) {
   const shared = await sharedProjectIds(viewer);
@@ -30,7 +33,7 @@ export async function fieldHome(viewer: Viewer) {
   const ids = sels.map((s) => s.id);
   const checks = ids.length
     ? await db()
-        .select({ id: fieldChecks.id, selectionId: fieldChecks.selectionId, version: fieldChecks.version, verdict: fieldChecks.verdict, grade: fieldChecks.grade, takenAt: fieldChecks.takenAt, createdAt: fieldChecks.createdAt, byName: users.name, byWorkspace: workspaces.name })
+        .select({ id: fieldChecks.id, selectionId: fieldChecks.selectionId, version: fieldChecks.version, verdict: fieldChecks.verdict, grade: fieldChecks.grade, takenAt: fieldChecks.takenAt, createdAt: fieldChecks.createdAt, byName: users.name, byWorkspace: workspaces.name, readingsJson: fieldChecks.readingsJson, resultJson: fieldChecks.resultJson })
         .from(fieldChecks)
         .leftJoin(users, eq(users.id, fieldChecks.createdBy))
         .innerJoin(workspaces, eq(workspaces.id, fieldChecks.workspaceId))
@@ -40,13 +43,26 @@ export async function fieldHome(viewer: Viewer) {
     : [];
   const titleOf = new Map(sels.map((s) => [s.id, `${s.title} · ${s.projectName}`]));
   const madeAt = new Map(sels.map((s) => [s.id, s.createdAt]));
+  // The frozen documents of the selections these checks were recorded against (30 checks: a few documents), read once each.
+  const frozenIds = [...new Set(checks.map((c) => c.selectionId))];
+  const docs = frozenIds.length ? await db().select({ id: selections.id, frozenJson: selections.frozenJson }).from(selections).where(inArray(selections.id, frozenIds)) : [];
+  const frozenOf = new Map(docs.map((d) => {
+    const read = readStoredSelection(d.frozenJson);
+    return [d.id, read.ok ? frozenForToday(d.frozenJson, read.frozen) : null] as const;
+  }));
   return {
     selections: sels.map((s) => ({ id: s.id, title: s.title, projectName: s.projectName, systemName: s.systemName, ownerName: s.ownerName, own: s.workspaceId === viewer.workspace.id })),
-    checks: checks.map(({ takenAt, ...c }) => ({
-      ...c,
-      createdAt: c.createdAt.toISOString(),
-      times: checkTimes(takenAt, c.createdAt, madeAt.get(c.selectionId) ?? c.createdAt),
-      selection: titleOf.get(c.selectionId) ?? "",
+    checks: await Promise.all(checks.map(async ({ takenAt, readingsJson, resultJson, ...c }) => {
+      const today = await ruledTodayKept(frozenOf.get(c.selectionId) ?? null, readingsJson, c.grade, () => readStoredReadings(readingsJson));
+      // Only where today's rules cannot judge: the stored result, for the stored verdict's rule (null where it does not read).
+      const stored = today ? null : readStoredCheck({ readingsJson, resultJson });
+      return {
+        ...c,
+        createdAt: c.createdAt.toISOString(),
+        times: checkTimes(takenAt, c.createdAt, madeAt.get(c.selectionId) ?? c.createdAt),
+        selection: titleOf.get(c.selectionId) ?? "",
+        shown: listedVerdict({ verdict: c.verdict, grade: c.grade, savedAt: c.createdAt.toISOString(), result: stored?.ok ? stored.result : null }, today),
+      };
     })),
   };
 }
@@ -54,29 +70,37 @@ export async function fieldHome(viewer: Viewer) {
 /** Every check of a selection, newest first, with the selection's frozen document (the check page; 409 when it cannot be read). */
 export async function checkHistory(viewer: Viewer, selectionId: number) {
   const sel = await fieldSelection(viewer, selectionId);
-  return { selection: sel, checks: await checksOf(sel.id) };
+  // The fingerprint digests the frozen document as stored (and the title): the key today's verdicts are kept under.
+  return { selection: sel, checks: await checksOf(sel.id, { key: sel.fingerprint, doc: sel.frozen }) };
 }
 
 /**
- * Every check of a selection, newest first (the checks' CSV: each check carries its own result), each with `verdictToday`:
- * its readings judged under today's rules against the frozen document where that differs from the stored verdict, else null
- * (agreeing, not judgeable today, or a frozen document that does not read: the stored verdict stands alone).
+ * Every check of a selection, newest first (the checks' CSV: each check carries its own result), each with `verdictToday`
+ * and `verdictTodayRule`: its readings judged under today's rules against the frozen document where that differs from the
+ * stored verdict, with its rule and numbers, else null (agreeing, not judgeable today, or a frozen document that does not
+ * read: the stored verdict stands alone).
  */
 export async function checkRecords(viewer: Viewer, selectionId: number) {
   const { record, ...sel } = await fieldSelectionRecord(viewer, selectionId);
   const frozen = readStoredSelection(record.frozenJson);
-  const today = (c: Awaited<ReturnType<typeof checksOf>>[number]) => (c.readable && frozen.ok ? (judgedToday(frozen.frozen, c.readings, c.grade, c.verdict)?.verdict ?? null) : null);
-  return { selection: sel, checks: (await checksOf(sel.id)).map((c) => ({ ...c, verdictToday: today(c) })) };
+  const checks = await checksOf(sel.id, frozen.ok ? frozenForToday(record.frozenJson, frozen.frozen) : null);
+  const differs = (c: (typeof checks)[number]) => (c.readable && c.shown.today !== null ? c.shown : null);
+  return { selection: sel, checks: checks.map((c) => ({ ...c, verdictToday: differs(c)?.today ?? null, verdictTodayRule: differs(c)?.rule ?? null })) };
 }
 
 /**
  * The checks recorded against a selection, newest first by the time their readings were taken (the phone's clock where
  * it was sent, else the server's when recorded), each with both times (taken-at.ts) and marked when a later version exists. A check whose
  * stored readings or result fail their schemas (stored-check.ts) is listed as unreadable (`readable: false`: who, when
- * and what is wrong, no numbers) and the others as before: one damaged row never takes the list down.
+ * and what is wrong, no numbers) and the others as before: one damaged row never takes the list down. Each readable one
+ * with the verdict a list shows (`shown`, listed-verdict.ts): its readings judged with today's engine against `frozen`
+ * (kept per process, today.server.ts), the stored verdict beside it where they differ; with `frozen` null (a document that
+ * does not read), the stored verdict said as saved.
  * No access rule: callers pass a selection they have already opened for the viewer.
+ * @param selectionId the selection, opened for the viewer
+ * @param frozen its frozen document with its key, or null where it does not read
  */
-export async function checksOf(selectionId: number) {
+export async function checksOf(selectionId: number, frozen: FrozenForToday | null) {
   const rows = await db()
     .select({ c: fieldChecks, byName: users.name, byWorkspace: workspaces.name, selectionMade: selections.createdAt })
     .from(fieldChecks)
@@ -90,7 +114,7 @@ export async function checksOf(selectionId: number) {
     const chain = r.c.chainId ?? r.c.id;
     if (!latestOfChain.has(chain) || latestOfChain.get(chain)! < r.c.version) latestOfChain.set(chain, r.c.version);
   }
-  return rows.map((r) => {
+  return Promise.all(rows.map(async (r) => {
     const base = {
       id: r.c.id,
       chainId: r.c.chainId ?? r.c.id,
@@ -105,10 +129,11 @@ export async function checksOf(selectionId: number) {
       byWorkspace: r.byWorkspace,
     };
     const stored = readStoredCheck(r.c);
-    return stored.ok
-      ? { ...base, readable: true as const, result: stored.result, readings: stored.readings }
-      : { ...base, readable: false as const, problems: stored.problems.slice(0, MAX_PROBLEMS_LISTED), problemCount: stored.problems.length };
-  });
+    if (!stored.ok) return { ...base, readable: false as const, problems: stored.problems.slice(0, MAX_PROBLEMS_LISTED), problemCount: stored.problems.length };
+    const today = await ruledTodayKept(frozen, r.c.readingsJson, r.c.grade, () => stored.readings);
+    const shown = listedVerdict({ verdict: r.c.verdict, grade: r.c.grade, savedAt: base.createdAt, result: stored.result }, today);
+    return { ...base, readable: true as const, result: stored.result, readings: stored.readings, shown };
+  }));
 }
 
 export type ListedCheck = Awaited<ReturnType<typeof checksOf>>[number];

@@ -3,7 +3,7 @@
 import { qt } from "~/engine/quantityText";
 import { pctAsTyped } from "../shared/format";
 import type { Readings } from "./form";
-import type { CheckResult } from "./result";
+import { MARGINAL_NOTE, type CheckResult } from "./result";
 import { PUBLISHED_PART } from "./curve-ends";
 import { crossSummary } from "./cross";
 import { powerGradeSummary } from "./power-grade";
@@ -46,5 +46,7 @@ export function deliveredSentence(r: CheckResult): string {
   const published = r.warnings.find((w) => w.startsWith(PUBLISHED_PART));
   // The verdict's rule and numbers: each arm of the cross with the curve's value and the grade's allowance (cross.ts).
   const arms = crossSummary(r);
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${arms ? ` ${arms}` : ""}${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
+  // A marginal check: the point within the readings' uncertainty that meets the grade, with the uncertainty (evaluate.ts's note).
+  const within = r.verdict === "marginal" ? r.warnings.find((w) => w.startsWith(MARGINAL_NOTE)) : undefined;
+  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${arms ? ` ${arms}` : ""}${within ? ` ${within}` : ""}${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
 }
