@@ -1,6 +1,6 @@
 // The field checks recorded against a selection, on its report page (not printed: the report is the
 // frozen selection; checks come later). Each links to its own page at /field/checks/:id.
-import { VERDICT_TEXT, type CheckTimes, type Verdict } from "~/lib/fieldchecks";
+import type { CheckTimes, ListedVerdict, Verdict } from "~/lib/fieldchecks";
 import { CheckWhen, VerdictBadge } from "./fieldcheck";
 import { ListTable } from "./ListTable";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
@@ -8,7 +8,7 @@ import { fmtDate } from "~/lib/shared/format";
 
 /** One check as `checksOfSelection` (app/lib/fieldchecks/selection-checks.server.ts) gives it: readable, or what is wrong with its stored record. */
 export type SelectionCheckRow = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string } & (
-  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; cross: string | null; power: string; note: string | null; today?: Verdict | null }
+  | { readable: true; flow: number | null; head: number; flowSource: string; verdict: Verdict; rule: string; cross: string | null; power: string; note: string | null; today?: Verdict | null; shown?: ListedVerdict }
   | { readable: false; unreadable: string }
 );
 
@@ -42,17 +42,19 @@ export function SelectionFieldChecks({ checks, unitSystem, selectionId }: { chec
                     {c.flowSource !== "measured" && c.flow !== null ? <div className="text-xs text-slate-500">flow read off the curve</div> : null}
                   </td>
                   <td>
-                    <VerdictBadge verdict={c.verdict} />
-                    {c.note ? <div className="max-w-xs text-xs text-slate-600" data-testid="verdict-note">{c.note}</div> : null}
-                    {c.today ? (
+                    {/* Today's verdict; where the one stored when the check was saved differs (or today's rules cannot judge), both, labelled. */}
+                    <VerdictBadge verdict={c.shown?.verdict ?? c.verdict} />
+                    {c.shown && (c.shown.today !== null || !c.shown.judgedToday) ? (
                       <div className="max-w-xs text-xs text-slate-600" data-testid="verdict-today">
-                        Today's rules give {VERDICT_TEXT[c.today]} on these readings; the verdict recorded is kept (amend to record today's).
+                        {c.shown.label}. The record keeps the verdict saved; amend it to record today&apos;s.
                       </div>
                     ) : null}
+                    {c.note && !c.shown ? <div className="max-w-xs text-xs text-slate-600" data-testid="verdict-note">{c.note}</div> : null}
                   </td>
                   <td className="max-w-xs text-xs">
                     {c.rule}
-                    {c.cross ? <div data-testid="verdict-cross">{c.cross}</div> : null}
+                    {/* The shown verdict's rule and numbers (today's where judged; its note included). */}
+                    {c.shown ? <div data-testid="verdict-cross">{c.shown.rule}</div> : c.cross ? <div data-testid="verdict-cross">{c.cross}</div> : null}
                     <div className="text-slate-600">{c.power}</div>
                   </td>
                 </>

@@ -291,7 +291,7 @@ function RecordHead({ d }: { d: RecordData }) {
  * Where the readings judged under today's rules give another verdict than the one stored (judged-today.ts): both verdicts,
  * each with its words, and how to record today's. The stored verdict stays the record's.
  */
-function JudgedTodayNote({ today, stored, grade, recordedAt }: { today: { verdict: Verdict; message: string; note: string | null }; stored: Verdict; grade: string; recordedAt: string }) {
+function JudgedTodayNote({ today, stored, grade, recordedAt }: { today: { verdict: Verdict; message: string; note: string | null; rule: string }; stored: Verdict; grade: string; recordedAt: string }) {
   return (
     <div className="caution space-y-1 text-sm" data-testid="judged-today">
       <p>
@@ -299,6 +299,8 @@ function JudgedTodayNote({ today, stored, grade, recordedAt }: { today: { verdic
         the rules Dutymark applies today, give another verdict: <VerdictBadge verdict={today.verdict} grade={grade} /> — {today.message}.
       </p>
       {today.note ? <p>{today.note}</p> : null}
+      {/* Today's verdict's rule and numbers (listed-verdict.ts `verdictRule`), as the lists say it. */}
+      <p data-testid="judged-today-rule">Today&apos;s rule and numbers: {today.rule}</p>
       <p>The sentence above is the one recorded; the tolerance cross and the power and efficiency limits below are read from the stored deviations with today&apos;s allowances. To record today&apos;s verdict, amend this check (a new version with the same readings).</p>
     </div>
   );

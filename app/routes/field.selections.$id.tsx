@@ -66,7 +66,7 @@ export default function FieldSelection() {
       <SelectionSummary selection={selection} unitSystem={page.unitSystem} />
       <FieldCaution />
       <OfflineReady kept={kept} />
-      <PendingChecks pending={pending} unitSystem={page.unitSystem} />
+      <PendingChecks pending={pending} unitSystem={page.unitSystem} selection={selection} />
       {page.mayWrite ? (
         <CheckForm selection={selection} owner={page.owner} workspaceId={page.workspaceId} units={page.unitSystem} fields={fields} serverErrors={answer?.errors} amends={page.amends} onQueued={() => void pending.refresh()} />
       ) : (

@@ -79,7 +79,11 @@ export default function FieldHome() {
                 <span className="text-slate-600">
                   <CheckWhen times={c.times} /> · {c.byName || "—"} ({c.byWorkspace})
                 </span>
-                <VerdictBadge verdict={c.verdict} grade={c.grade} />
+                {/* Today's verdict with its rule and numbers; the stored one beside it, dated, where they differ (listed-verdict.ts). */}
+                <VerdictBadge verdict={c.shown.verdict} grade={c.grade} />
+                <span className="w-full text-xs text-slate-600" data-testid="verdict-shown" data-differs={c.shown.today !== null ? "yes" : "no"}>
+                  {c.shown.text}
+                </span>
               </li>
             ))}
           </ul>

@@ -46,6 +46,8 @@ test("stored 'outside tolerance', today 'within tolerance': both said, the store
   expect(note).toMatch(/within tolerance · grade 2B<\/span> — Delivered point [^<]*2B/);
   expect(note).toContain("amend this check");
   expect(note).not.toContain("⟦");
+  // Today's verdict with its rule and numbers, as the lists say it (decision "fieldverdicts"; was: the sentence alone).
+  expect(note.replace(/&#x27;/g, "'")).toContain("Today's rule and numbers: Tolerance cross of grade 2B, as read (either arm meets it): head +2.0 % of the curve's 28.0 m at the measured flow (allowed −5 % to +5 %), met;");
 });
 
 test("a selection whose frozen document no longer reads: the check's page still shows its stored record, without today's verdict", async () => {

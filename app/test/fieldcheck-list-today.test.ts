@@ -11,6 +11,7 @@ import { getSelection } from "~/lib/projects/selections.server";
 import { checksOfSelection } from "~/lib/fieldchecks/selection-checks.server";
 import { SelectionFieldChecks, type SelectionCheckRow } from "~/components/SelectionFieldChecks";
 import { renderDeep, SI_UNITS } from "~/lib/shared/units";
+import { fmtDate } from "~/lib/shared/format";
 import { makeMember, type TestMember } from "./harness";
 import { recordAtHead, storeSelection } from "./fieldcheck-fixture";
 
@@ -38,5 +39,6 @@ test("stored 'fail', today 'pass': the row keeps fail and says today's; the agre
   expect(a.readable && [a.verdict, a.today]).toEqual(["pass", null]);
   const html = renderToStaticMarkup(createElement(SelectionFieldChecks, { checks: renderDeep(rows, SI_UNITS) as SelectionCheckRow[], unitSystem: SI_UNITS, selectionId: sel }));
   expect(html.match(/data-testid="verdict-today"/g)?.length).toBe(1);
-  expect(html).toContain("Today&#x27;s rules give within tolerance on these readings; the verdict recorded is kept (amend to record today&#x27;s).");
+  // Since decision "fieldverdicts": both verdicts labelled, the stored one with the day it was saved (badge: today's).
+  expect(html).toContain(`outside tolerance against grade 2B when saved on ${fmtDate(new Date())}; today: within tolerance. The record keeps the verdict saved; amend it to record today&#x27;s.`);
 });

@@ -103,6 +103,8 @@ export function CheckForm(props: Props) {
       photos: files.map((f) => ({ name: f.name, type: f.type, blob: f })),
       createdAt: takenAt,
       local,
+      // The selection worked against: the queue works the readings out again with the phone's engine on every page (pending-shown.ts).
+      frozen: selection.frozen,
       status: "waiting",
     };
     try {

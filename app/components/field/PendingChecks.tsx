@@ -7,6 +7,8 @@ import { useCallback, useEffect, useState } from "react";
 import { allQueued, deleteQueued, type QueuedCheck } from "./queue";
 import { addSent, sendAsAmendmentOfLatest, sendDespiteConflict, sendWaiting, sendWithoutPhotos, type Sent } from "./sync";
 import { fmtFlow, fmtHead, renderUnits, type UnitChoice } from "~/lib/shared/units";
+import type { FrozenSelection } from "~/lib/fieldchecks";
+import { pendingShown } from "./pending-shown";
 import { fmtDateTime } from "~/lib/shared/format";
 
 /** The checks `owner` ("userId/workspaceId") kept on this phone (of one selection, or all), sent whenever the network is there. */
@@ -31,7 +33,11 @@ export function usePendingChecks(owner: string, selectionId: number | null) {
   return { queued, sent, refresh, send, setSent };
 }
 
-export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean }) {
+/**
+ * The panel. `selection`: the selection the page shows (its fingerprint and frozen document), against which a check kept
+ * before checks carried their own selection is worked out again when it was kept for this one.
+ */
+export function PendingChecks(props: { pending: ReturnType<typeof usePendingChecks>; unitSystem: UnitChoice; showSelection?: boolean; selection?: { fingerprint: string; frozen: FrozenSelection } }) {
   const { queued, sent, refresh, send, setSent } = props.pending;
   const after = async (done: Sent | null) => {
     if (done) setSent((s) => addSent(s, [done]));
@@ -52,23 +58,7 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
         <ul className="divide-y divide-slate-100 text-sm">
           {queued.map((c) => (
             <li key={c.clientId} className="space-y-1 py-2" data-status={c.status}>
-              <p>
-                <span className="font-semibold">{c.status === "waiting" ? "Waiting to send" : c.status === "conflict" ? "Conflict: not recorded" : "Refused by the server"}</span>
-                {" · "}
-                {props.showSelection ? `${c.selectionTitle} · ` : ""}
-                {fmtDateTime(c.createdAt)}
-              </p>
-              <p className="text-slate-700">
-                Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(c.local.verdictText, sys)}
-                {c.local.grade ? ` against grade ${c.local.grade}` : ""}. The server works it out again when it is sent.
-                {c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
-              </p>
-              {/* The verdict's rule and numbers, or why there is none (checks kept before carry neither). */}
-              {c.local.cross || c.local.note ? (
-                <p className="text-xs text-slate-600" data-testid="pending-verdict-numbers">
-                  {renderUnits([c.local.cross, c.local.note].filter(Boolean).join(" "), sys)}
-                </p>
-              ) : null}
+              <KeptCheck c={c} sys={sys} selection={props.selection} showSelection={props.showSelection} />
               {c.message ? <p className="font-semibold text-fail">{renderUnits(c.message, sys)}</p> : null}
               {c.status === "conflict" && c.latest ? (
                 <>
@@ -120,6 +110,35 @@ export function PendingChecks(props: { pending: ReturnType<typeof usePendingChec
         </ul>
       ) : null}
     </section>
+  );
+}
+
+/**
+ * One kept check's heading and verdict: the readings worked out again with the phone's engine now, the verdict kept when it
+ * was saved beside it where they differ (pending-shown.ts), with the shown verdict's rule and numbers.
+ */
+function KeptCheck({ c, sys, selection, showSelection }: { c: QueuedCheck; sys: UnitChoice; selection?: { fingerprint: string; frozen: FrozenSelection }; showSelection?: boolean }) {
+  const shown = pendingShown(c, selection ?? null, sys);
+  return (
+    <>
+      <p>
+        <span className="font-semibold">{c.status === "waiting" ? "Waiting to send" : c.status === "conflict" ? "Conflict: not recorded" : "Refused by the server"}</span>
+        {" · "}
+        {showSelection ? `${c.selectionTitle} · ` : ""}
+        {fmtDateTime(c.createdAt)}
+      </p>
+      <p className="text-slate-700">
+        Worked out on this phone: {c.local.flow !== null ? fmtFlow(sys, c.local.flow) : "flow not known"} at {fmtHead(sys, c.local.head)}, {renderUnits(shown.label, sys)}. The server works it out again when it is
+        sent.
+        {c.photos.length ? ` ${c.photos.length} photo${c.photos.length === 1 ? "" : "s"}.` : ""}
+      </p>
+      {/* The shown verdict's rule and numbers, or why there is none (a check kept before, not worked out again here, may carry neither). */}
+      {shown.rule ? (
+        <p className="text-xs text-slate-600" data-testid="pending-verdict-numbers" data-differs={shown.today !== null ? "yes" : "no"}>
+          {renderUnits(shown.rule, sys)}
+        </p>
+      ) : null}
+    </>
   );
 }
 

@@ -1,6 +1,6 @@
 // The head of a selection's check page (what was selected) and its list of recorded checks.
 import { CheckWhen, VerdictBadge } from "../fieldcheck";
-import type { CheckTimes, Verdict } from "~/lib/fieldchecks";
+import type { CheckTimes, ListedVerdict, Verdict } from "~/lib/fieldchecks";
 import { fmtFlow, fmtHead, type UnitChoice } from "~/lib/shared/units";
 
 export type SummarySelection = {
@@ -63,7 +63,7 @@ export function SelectionSummary({ selection, unitSystem }: { selection: Summary
 
 /** One check of the history (page.server.ts `checkPage`): readable, or what is wrong with its stored record. */
 export type HistoryEntry = { id: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes } & (
-  | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string; cross?: string | null }
+  | { readable: true; verdict: Verdict; grade: string; flow: number | null; head: number; flowSource: string; cross?: string | null; shown?: ListedVerdict }
   | { readable: false; unreadable: string }
 );
 
@@ -94,8 +94,13 @@ export function CheckHistoryList({ selectionId, history, unitSystem }: { selecti
                     {check.flow != null ? fmtFlow(unitSystem, check.flow) : "—"} at {fmtHead(unitSystem, check.head)}
                     {check.flowSource === "measured" ? "" : " (flow inferred)"}
                   </span>
-                  <VerdictBadge verdict={check.verdict} grade={check.grade} />
-                  {check.cross ? (
+                  {/* Today's verdict with its rule and numbers; the stored one beside it, dated, where they differ (listed-verdict.ts). */}
+                  <VerdictBadge verdict={check.shown?.verdict ?? check.verdict} grade={check.grade} />
+                  {check.shown ? (
+                    <span className="w-full text-xs text-slate-600" data-testid="verdict-shown" data-differs={check.shown.today !== null ? "yes" : "no"}>
+                      {check.shown.text}
+                    </span>
+                  ) : check.cross ? (
                     <span className="w-full text-xs text-slate-600" data-testid="verdict-cross">
                       {check.cross}
                     </span>

@@ -2,7 +2,7 @@
 // (`parseCheckFields`, the grade, `headRefusal` — readings that give the pump a total head at or below zero refused at the
 // discharge reading with the head they give, submit.server.ts), then the check worked out on the phone with the same engine
 // (`evaluateCheck`). A check the server would refuse is never queued: the contractor sees the field error on site. Pure.
-import { checkedHeadRefusal, crossSummary, evaluateCheck, gradeById, headRefusal, parseCheckFields, verdictNote, type FrozenSelection } from "~/lib/fieldchecks";
+import { checkedHeadRefusal, crossSummary, evaluateCheck, gradeById, headRefusal, parseCheckFields, verdictNote, verdictRule, type FrozenSelection } from "~/lib/fieldchecks";
 import { renderUnits, type UnitChoice } from "~/lib/shared/units";
 import type { QueuedCheck } from "./queue";
 
@@ -30,7 +30,7 @@ export function checkOnPhone(raw: Record<string, string>, frozen: FrozenSelectio
     const noCheckedHead = parsed.readings.flow === null ? checkedHeadRefusal(result.delivered.head, parsed.readings, parsed.fields) : null;
     if (noCheckedHead) return { ok: false, errors: { dPressure: noCheckedHead } };
     // The verdict with its grade, rule and numbers (or why there is none), as the server's lists say it.
-    const local = { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head, grade: result.grade.id, cross: crossSummary(result), note: verdictNote(result) };
+    const local = { verdict: result.verdict, verdictText: result.verdictText, flow: result.delivered.flow, head: result.delivered.head, grade: result.grade.id, cross: crossSummary(result), note: verdictNote(result), rule: verdictRule(result) };
     return { ok: true, local };
   } catch (e) {
     return { ok: false, errors: { _form: `These readings cannot be worked out: ${renderUnits(e instanceof Error ? e.message : String(e), units)}.` } };

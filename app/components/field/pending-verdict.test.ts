@@ -20,7 +20,7 @@ const frozen = frozenFixture();
 function shown(fields: Record<string, string>): string {
   const r = checkOnPhone(fields, frozen, SI_UNITS);
   if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  const c: QueuedCheck = { clientId: "c1", owner: "u/1", selectionId: 1, selectionTitle: "S", basedOn: "f", fields, photos: [], createdAt: "2026-12-04T05:00:00Z", local: r.local, status: "waiting" };
+  const c: QueuedCheck = { clientId: "c1", owner: "u/1", selectionId: 1, selectionTitle: "S", basedOn: "f", fields, photos: [], createdAt: "2026-12-04T05:00:00Z", local: r.local, status: "waiting", frozen };
   const pending = { queued: [c], sent: [], refresh: async () => {}, send: async () => {}, setSent: () => {} };
   return renderToString(createElement(PendingChecks, { pending: pending as never, unitSystem: SI_UNITS })).replace(/<!-- -->/g, "").replace(/&#x27;/g, "'");
 }

@@ -1,7 +1,7 @@
 // The phone's send queue for field checks, in IndexedDB: every check entered with JavaScript is
 // kept here first (photos as Blobs), shown as "waiting to send", and removed only once the server
 // has answered with the recorded check. Browser only.
-import type { CheckFields } from "~/lib/fieldchecks";
+import type { CheckFields, FrozenSelection } from "~/lib/fieldchecks";
 
 export type QueuedPhoto = { name: string; type: string; blob: Blob };
 
@@ -28,7 +28,14 @@ export type QueuedCheck = {
     grade?: string;
     cross?: string | null;
     note?: string | null;
+    /** The verdict's rule and numbers in one paragraph (listed-verdict.ts `verdictRule`); missing from checks kept before. */
+    rule?: string;
   };
+  /**
+   * The selection as the phone worked the check out against (the fingerprint `basedOn`): the queue works the readings out
+   * again with the engine the phone has today, on every page (pending-verdict.ts). Missing from checks kept before.
+   */
+  frozen?: FrozenSelection;
   /** "waiting" with a `message`: not sent for a reason that passes (the session is in another workspace). */
   status: "waiting" | "conflict" | "refused";
   message?: string;

@@ -9,7 +9,7 @@ import { inSI } from "~/engine/quantityText";
 import { UNIT_SYSTEMS, unitLabel, type Quantity } from "~/engine";
 import type { CheckTimes } from "./taken-at";
 
-type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string; /** Today's verdict on the readings where it differs from the stored one (judged-today.ts); null or missing where not. */ verdictToday?: Verdict | null };
+type CheckBase = { id: number; chainId: number; version: number; superseded: boolean; createdAt: string; times: CheckTimes; byName: string; byWorkspace: string; verdict: Verdict; grade: string; notes: string; /** Today's verdict on the readings where it differs from the stored one (judged-today.ts); null or missing where not. */ verdictToday?: Verdict | null; /** Today's verdict's rule and numbers where it differs (quantity tokens); null or missing where not. */ verdictTodayRule?: string | null };
 
 /** What `checkHistory` (records.server.ts) answers, as far as the CSV reads it. */
 export type CheckHistoryForCsv = {
@@ -35,7 +35,7 @@ const VERDICT_RULE =
   "a liquid with no curve to hold the pump to, a suction reading at or below the liquid's vapour pressure (misread, or the pump cavitating), the readings' uncertainty wider than the grade's tolerance (head, flow, or power_accuracy as above), a measured flow outside the flows the curve is published for that the grade's flow arm does not reach, " +
   "or one whose flow arm reaches them at a measured head the published curve does not state, so that neither arm can be read as read). " +
   "A flow outside the published flows whose flow arm reaches them is judged on that part of the curve only, and verdict_note says so. " +
-  "verdict is the one recorded, kept as recorded; verdict_today is what the row's own readings give under today's rules where that differs (a rule changed since it was recorded; amending records it), blank where they agree or cannot be judged today.";
+  "verdict is the one recorded, kept as recorded; verdict_today is what the row's own readings give under today's rules where that differs (a rule changed since it was recorded; amending records it), blank where they agree or cannot be judged today; verdict_today_rule (the last column) is today's rule with its numbers (the tolerance cross's arms, the point within the readings' uncertainty, the power limits, or why no verdict) where verdict_today is given.";
 
 /** The quantities a note may carry (verdict-note words: flows, heads, pressures, power, temperature, speed). */
 const NOTE_QUANTITIES: readonly Quantity[] = ["flow", "head", "pressure", "power", "temperature", "speed"];
@@ -71,7 +71,7 @@ export function historyCsv(h: CheckHistoryForCsv): string {
       "suction_pa_as_read", "suction_reference", "discharge_pa_as_read", "discharge_reference",
       "suction_pa_gauge", "discharge_pa_gauge", "temperature_c", "suction_accuracy_pa", "discharge_accuracy_pa", "flow_accuracy",
       "power_limits", "shaft_power_w", "power_dev_from_curve", "power_allowed_above", "pump_efficiency", "efficiency_dev_from_curve", "efficiency_allowed_below",
-      "power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes",
+      "power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes", "verdict_today_rule",
     ],
   ];
   for (const c of [...h.checks].reverse()) {
@@ -86,6 +86,8 @@ export function historyCsv(h: CheckHistoryForCsv): string {
         r.gauges.suction, r.gauges.discharge, c.readings.temperatureC,
         // The instruments' accuracies as entered (± Pa, ± fraction of the reading); blank where not given — never 0, a perfect one.
         c.readings.suction.accuracy, c.readings.discharge.accuracy, c.readings.flowAccuracy, ...powerColumns(r), ...accuracyColumns(c.readings, r), ...limitColumns(r), c.notes,
+        // Free text last, after the notes: today's rule with its numbers where verdict_today is given.
+        c.verdictTodayRule ? inSI(c.verdictTodayRule) : "",
     ]);
   }
   return toCsv(lines, { precision: 8 });

@@ -1,147 +1,32 @@
 // The field check itself, pure: readings against a frozen selection → the delivered duty point,
 // deviations, a verdict against a labelled tolerance grade and plain hints. No database, no Node
-// API: the server runs it when a check is recorded, the phone runs it offline (same numbers).
+// API: the server runs it when a check is recorded, the phone runs it offline (same numbers). Its parts, one concept
+// a file: frozen-curve.ts (the selection's curve, the grades), speed-range.ts, verdict-for.ts, hints.ts, sentences.ts.
 import {
-  AFFINITY_SPEED_RANGE,
-  createPumpCurve,
   EngineInputError,
   efficiencyAt,
   fieldCheck,
   G0,
   gradePowerWithinAccuracy,
   headAt,
-  gradeWithinUncertainty,
-  sampleCurve,
   scaleBySpeed,
-  scaleByTrim,
   STANDARD_ATMOSPHERE,
-  TOLERANCE_GRADES,
-  withinGrade,
-  type FieldCheckResult,
-  type GradePowerWitness,
-  type GradeWitness,
-  type PumpCurve,
-  type ToleranceGrade,
 } from "~/engine";
-import { fluidOf, toPumpPoints, type Adjustment, type evaluateCandidate, type evaluateSystem, type SystemInput } from "../projects/hydraulics";
-import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings, type Verdict } from "./form";
-import { powerGradeOf, powerGradeSummary } from "./power-grade";
+import { fluidOf } from "../projects/hydraulics";
+import { inputPowerW, speedRpm, VERDICT_TEXT, type Readings } from "./form";
+import { powerGradeOf } from "./power-grade";
 import { curveOnLiquid } from "./liquid-curve";
-import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf, PUBLISHED_PART } from "./curve-ends";
-import type { CheckResult, Pt } from "./result";
-import { crossMissWords, crossSummary } from "./cross";
+import { crossingOff, crossingOffJudged, crossingOffNoVerdict, curveEndJudgedNote, curveEndNoVerdict, curveEndOf } from "./curve-ends";
+import { FIELD_CHECK_FORMAT, MARGINAL_NOTE, type CheckResult } from "./result";
+import { crossMissWords } from "./cross";
 import { suctionAtVapour } from "./suction-vapour";
 import { powerLimitsTooWide, uncertaintyMessage, uncertaintyNoVerdict, uncertaintyTooWide } from "./uncertainty-bound";
 import { fmtNumExact, fmtPctExact, fmtPctLimit, qt } from "~/engine/quantityText";
-import { pctAsTyped } from "../shared/format";
-
-/** Measured speed / the curve's speed within which a check is judged: the engine's affinity range (about 50–120 %). */
-export const SPEED_RANGE = AFFINITY_SPEED_RANGE;
-
-/**
- * A measured speed in rpm (number only) with the decimals that keep it apart from the ends of the range the curve may be
- * translated in (the no-verdict warning's numbers) and from `others`: 1449.7 rpm of a 2900 rpm curve reads "1449.7", not
- * "1450" (50 %, inside); a speed well inside reads to the whole rpm.
- * @param measured the measured speed, rpm
- * @param rated the curve's speed, rpm (null: no range)
- * @param others other speeds printed beside it, rpm
- */
-export function measuredRpmText(measured: number, rated: number | null, others: readonly (number | null)[] = []): string {
-  return fmtNumExact(measured, [...(rated !== null ? SPEED_RANGE.map((f) => f * rated) : []), ...others], 0);
-}
-
-export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
-
-/**
- * The parts of a frozen selection (projects' `FrozenSelection`, which fits this shape) that a check
- * reads: spelled out here so this module imports no server module and runs on the phone.
- */
-export type FrozenSelection = {
-  system: { input: SystemInput };
-  systemCurve: ReturnType<typeof evaluateSystem> | null;
-  pump: { label?: string; speed: number | null; impellerDiameter: number | null; points: Parameters<typeof toPumpPoints>[0] };
-  adjustment: Adjustment;
-  result: ReturnType<typeof evaluateCandidate>;
-};
-
-/** The tolerance grade of that id (ISO 9906 grades, `TOLERANCE_GRADES` in the engine), or null. */
-export function gradeById(id: string): ToleranceGrade | null {
-  return TOLERANCE_GRADES.find((g) => g.id === id) ?? null;
-}
-
-/** One pump's curve as selected (trim applied; speed ratio returned separately). */
-function selectedCurve(f: FrozenSelection): { base: PumpCurve; trimmed: PumpCurve; designRatio: number } {
-  const base = createPumpCurve({ points: toPumpPoints(f.pump.points), speed: f.pump.speed ?? undefined, impellerDiameter: f.pump.impellerDiameter ?? undefined, riseTolerance: 1 });
-  const ratio = f.result?.ratio ?? 1;
-  if (f.adjustment.method === "trim" && ratio !== 1) return { base, trimmed: scaleByTrim(base, ratio).curve, designRatio: 1 };
-  return { base, trimmed: base, designRatio: f.adjustment.method === "speed" ? ratio : 1 };
-}
-
-function sample(c: PumpCurve, rho: number) {
-  const s = sampleCurve(c, 41, rho);
-  return {
-    head: s.flows.map((q, i) => ({ flow: q, y: s.head[i] })),
-    eff: s.flows.map((q, i) => ({ flow: q, y: s.efficiency[i] })).filter((p): p is Pt => p.y != null),
-  };
-}
-
-/**
- * Verdict against one grade. Flow meter: pass if the point is within the grade of the curve at the
- * measured speed; marginal if not, but some point within the reading uncertainty (head ± gauge
- * accuracy, flow ± meter accuracy) is (solved over the whole box: `gradeWithinUncertainty`); fail
- * otherwise. No flow meter: unknown. With a marginal verdict comes the point that meets the grade. (`evaluateCheck` then
- * gives no tolerance verdict instead of a marginal one where the readings' uncertainty is wider than the grade's own
- * tolerance: uncertainty-bound.ts.)
- * Then the grade's power and efficiency limits, where the engine judged them (`e.grades`, from a measured shaft
- * power; power-grade.ts): a limit missed as read makes it a fail, whatever flow and head say — unless the power
- * reading's accuracy was entered and some power within it meets them (`powerWithin`, the engine's
- * `gradePowerWithinAccuracy`): then the check is at most marginal (a pass on flow and head becomes marginal). The power
- * limits are judged at the flow and head as read, not over their uncertainty box (why: gradePower.ts, at that function).
- * @param powerWithin where the power limits are missed as read: a shaft power within the reading's accuracy that meets them, or null (none, or no accuracy entered)
- */
-export function verdictFor(curve: PumpCurve, grade: ToleranceGrade, e: FieldCheckResult, flowAccuracy: number, headUncertainty: number, powerWithin: GradePowerWitness | null = null): { verdict: Verdict; within: GradeWitness | null } {
-  if (e.flowSource !== "measured" || e.flow === null) return { verdict: "unknown", within: null };
-  const powerMissed = e.grades.find((g) => g.id === grade.id)?.power?.pass === false;
-  if (powerMissed && !powerWithin) return { verdict: "fail", within: null };
-  const q = e.flow;
-  const h = e.tdh;
-  if (h > 0 && withinGrade(curve, q, h, grade)) return { verdict: powerMissed ? "marginal" : "pass", within: null };
-  if (headUncertainty > 0 || flowAccuracy > 0) {
-    const box = { flow: [q * (1 - flowAccuracy), q * (1 + flowAccuracy)], head: [h - headUncertainty, h + headUncertainty] } as const;
-    const within = gradeWithinUncertainty(curve, box, grade);
-    if (within) return { verdict: "marginal", within };
-  }
-  return { verdict: "fail", within: null };
-}
-
-/** A head deviation from the curve (fraction) within which the head is on it: the tolerance cross's allowance for rounding. */
-const ON_CURVE = 1e-12;
-
-/** Usual causes, worded as things to check — never a diagnosis. */
-function hintsFor(r: { verdict: Verdict; deviation: CheckResult["deviation"]; speed: CheckResult["speed"]; engine: FieldCheckResult; delivered: CheckResult["delivered"] }): string[] {
-  const hints: string[] = [];
-  // A pump adds head: a total head at or below zero means the readings are the wrong way round or misread (common practice).
-  if (r.delivered.head <= 0)
-    hints.push(`The pump's total head comes out at ${qt("head", r.delivered.head)}, ${r.delivered.head < 0 ? "below" : "at"} zero, but a running pump adds head: check that the suction and discharge readings are not swapped, each gauge's reference (gauge or absolute) and unit, and the gauge elevations.`);
-  const { dutyFlow, dutyHead, curveHead } = r.deviation;
-  const offDuty = dutyFlow !== null && Math.abs(dutyFlow) > 0.05;
-  if (offDuty && dutyFlow! < 0 && (dutyHead ?? 0) > 0)
-    hints.push("Less flow and more head than the design duty usually means the system is more resistant than designed: look for throttled or closed valves, a clogged strainer or filter, a fouled coil or a stuck check valve.");
-  if (offDuty && dutyFlow! > 0 && (dutyHead ?? 0) < 0)
-    hints.push("More flow and less head than the design duty usually means the system is less resistant than designed: look for an open bypass, a balancing valve left wide open, or a branch open that should be closed.");
-  if (r.speed.measured !== null && r.speed.design !== null && Math.abs(r.speed.measured / r.speed.design - 1) > 0.03)
-    hints.push(`The measured speed differs from the selection's speed (${measuredRpmText(r.speed.measured, r.speed.rated, [r.speed.design])} rpm against ${fmtNumExact(r.speed.design, [Math.round(r.speed.design)], 0)} rpm): check the drive's set point and limits, the motor's poles and the nameplate.`);
-  // A head on the curve within the rounding the tolerance cross allows (1e-12, the engine's gradeCross) is neither below nor above it.
-  // (Not where the head is at or below zero: the readings are misread, not the pump worn.)
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead < -ON_CURVE && r.delivered.head > 0)
-    hints.push("The pump is delivering less head than its curve at this flow. Usual causes to check: air in the pump or suction (entrained or trapped), cavitation (noise, low suction pressure), reverse rotation, a partly blocked impeller, or wear of the impeller and wear rings.");
-  if ((r.verdict === "fail" || r.verdict === "marginal") && curveHead !== null && curveHead > ON_CURVE)
-    hints.push("The readings sit above the pump's curve: check the gauges' zero and calibration, the gauge elevations, the pipe diameters entered, and the flow meter's range and installation.");
-  if (r.engine.verdict === "off-curve")
-    hints.push("The measured head is not on the curve at all: check the readings first (gauge reference, units, elevations), then the speed and whether the valve is shut.");
-  if (hints.length) hints.unshift("Usual causes to check — these are possibilities, not a diagnosis:");
-  return hints;
-}
+import { gradeById, sampleForChart, selectedCurve, type FrozenSelection } from "./frozen-curve";
+import { measuredRpmText, SPEED_RANGE } from "./speed-range";
+import { verdictFor } from "./verdict-for";
+import { hintsFor } from "./hints";
+import { marginalMessage, uncertaintyWords } from "./sentences";
 
 /** The delivered duty point and verdict from readings against a frozen selection (SI in, SI out). */
 export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: string): CheckResult {
@@ -279,7 +164,7 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   const withinWords = within && verdict === "marginal"
     ? `(${uncertaintyWords(readings, headUncertainty)}) ${qt("flow", within.flow)} at ${qt("head", within.head)} meets it (${within.arm === "head" ? "head" : "flow"} arm of the tolerance cross`
     : null;
-  if (withinWords) warnings.push(`At the tolerance limit: the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
+  if (withinWords) warnings.push(`${MARGINAL_NOTE} the reading misses grade ${grade.id}, but within its uncertainty ${withinWords}).`);
 
   const q = engine.flow;
   const hydraulic = q !== null ? rho * G0 * q * engine.tdh : null;
@@ -313,8 +198,8 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   // design speed), so its point on the system curve is the report's operating point, not the water curve's.
   const selectedOnLiquid = curveOnLiquid(designCurve, f.system.input.fluid, fluidOf(f.system.input).kinematicViscosity, design);
   const selectedCorrected = selectedOnLiquid.curve !== designCurve;
-  const sel = sample(selectedOnLiquid.curve, rho);
-  const mea = sample(curve, rho);
+  const sel = sampleForChart(selectedOnLiquid.curve, rho);
+  const mea = sampleForChart(curve, rho);
   const ev = f.systemCurve;
   const flowMax = Math.max(curve.flowMax, designCurve.flowMax, (q ?? 0) * 1.1, (duty?.flow ?? 0) * 1.2, engine.flowBand?.high ?? 0);
   const result: CheckResult = {
@@ -355,45 +240,4 @@ export function evaluateCheck(f: FrozenSelection, readings: Readings, gradeId: s
   };
   result.hints = hintsFor(result);
   return result;
-}
-
-/**
- * The readings' uncertainty as the marginal sentence states it, an accuracy not given said so (never as ±0): "flow ± 2 %,
- * head ± 0.36 m", "flow as read: the meter's accuracy not given, head ± 0.25 m (the discharge gauge's accuracy not given)",
- * "…, head as read: the gauges' accuracy not given". An entered 0 is stated as given ("flow ± 0 %").
- * @param r the readings (accuracies ± Pa and ± fraction, null when not given)
- * @param headUncertainty the gauges' given accuracies in quadrature over ρ·g, m
- */
-export function uncertaintyWords(r: Pick<Readings, "suction" | "discharge" | "flowAccuracy">, headUncertainty: number): string {
-  const flow = r.flowAccuracy === null ? "flow as read: the meter's accuracy not given" : `flow ± ${pctAsTyped(r.flowAccuracy)}`;
-  const missing = [r.suction.accuracy === null ? "suction" : null, r.discharge.accuracy === null ? "discharge" : null].filter((x) => x !== null);
-  const head = missing.length === 2 ? "head as read: the gauges' accuracy not given"
-    : `head ± ${qt("head", headUncertainty)}${missing.length ? ` (the ${missing[0]} gauge's accuracy not given)` : ""}`;
-  return `${flow}, ${head}`;
-}
-
-/**
- * The verdict's sentence for a check marginal as read: the engine's (missed as read), then what meets the grade within the
- * readings' uncertainty (`withinWords`: the uncertainty and the point with their numbers, quantity tokens) and/or within the power reading's
- * accuracy (`powerAccuracy`, a fraction); the engine's alone when neither.
- */
-function marginalMessage(engineMessage: string, withinWords: string | null, powerAccuracy: number | null): string {
-  const parts = [
-    withinWords ? `the readings' uncertainty ${withinWords}; see the notes on the working)` : null,
-    powerAccuracy !== null ? `the power reading's accuracy (±${pctAsTyped(powerAccuracy)}) a lower shaft power meets the grade's power and efficiency limits (see power and efficiency)` : null,
-  ].filter((x): x is string => x !== null);
-  return parts.length ? `${engineMessage} as read; ${parts.map((x) => `within ${x}`).join("; and ")}` : engineMessage;
-}
-
-/** The sentence with the delivered duty point, quantities as tokens (rendered in the reader's units), for the e-mail. */
-export function deliveredSentence(r: CheckResult): string {
-  const q = r.delivered.flow;
-  const src = r.engine.flowSource === "measured" ? "measured" : "inferred from the curve";
-  const first = q !== null ? `Delivered ${qt("flow", q)} (${src}) at ${qt("head", r.delivered.head)}` : `Measured head ${qt("head", r.delivered.head)}; flow could not be inferred`;
-  const duty = r.duty ? ` (design duty ${qt("flow", r.duty.flow)} at ${qt("head", r.duty.head)})` : "";
-  // Off the curve's published flows, judged on the part published: said with the verdict (curve-ends.ts).
-  const published = r.warnings.find((w) => w.startsWith(PUBLISHED_PART));
-  // The verdict's rule and numbers: each arm of the cross with the curve's value and the grade's allowance (cross.ts).
-  const arms = crossSummary(r);
-  return `${first}${duty}. Judged against grade ${r.grade.id}: ${r.verdictText}.${arms ? ` ${arms}` : ""}${published ? ` ${published}` : ""} ${powerGradeSummary(r)}`;
 }

@@ -2,7 +2,11 @@
 // the form codec, the pure evaluation, the stored result's type, the tolerance cross and the CSV.
 // The database side is imported by name where it is used (records.server.ts, photos.server.ts):
 // a `.server` module re-exported here would pull server code into the browser bundle.
-export { evaluateCheck, verdictFor, gradeById, deliveredSentence, FIELD_CHECK_FORMAT, SPEED_RANGE, measuredRpmText, type FrozenSelection } from "./evaluate";
+export { evaluateCheck } from "./evaluate";
+export { gradeById, type FrozenSelection } from "./frozen-curve";
+export { verdictFor } from "./verdict-for";
+export { deliveredSentence } from "./sentences";
+export { SPEED_RANGE, measuredRpmText } from "./speed-range";
 export {
   blankFields,
   DEFAULT_GRADE,
@@ -27,10 +31,12 @@ export {
   type Readings,
   type Verdict,
 } from "./form";
-export { verdictNote, type CheckResult, type Pt } from "./result";
+export { FIELD_CHECK_FORMAT, verdictNote, type CheckResult, type Pt } from "./result";
 export { MAX_CHECK_PHOTO_BYTES, MAX_PHOTO_BYTES, MAX_PHOTOS, photoLimitsText, photoProblem, tooLargeText } from "./photo-limits";
 export { armDeviationText, crossOf, crossSentences, crossSummary, type CrossArm } from "./cross";
 export { powerGradeOf, powerGradeSentences, powerGradeState, powerGradeSummary, type PowerGrade } from "./power-grade";
 export { historyCsv, type CheckHistoryForCsv } from "./csv";
 export { checkTimes, CLOCK_SLACK_S, type CheckTimes } from "./taken-at";
 export { checkedHeadRefusal, headRefusal } from "./head-check";
+export { listedVerdict, verdictRule, type ListedVerdict, type RuledVerdict } from "./listed-verdict";
+export { judgeToday, ruledToday } from "./judged-today";

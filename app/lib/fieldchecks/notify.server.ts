@@ -7,7 +7,7 @@ import type { Viewer } from "../libraries";
 import { sendMail } from "../mail/outbox.server";
 import { escapeHtml, fieldCheckMail, oneLine } from "../mail/templates";
 import { appUrl } from "../auth/accounts.server";
-import { deliveredSentence } from "./evaluate";
+import { deliveredSentence } from "./sentences";
 import { renderUnits } from "../shared/units";
 import { readStoredUnits } from "../auth/stored-units";
 import { verdictNote, type CheckResult } from "./result";

@@ -74,6 +74,8 @@ export async function checkPage(viewer: Viewer, selectionId: number, unitSystem:
         flowSource: check.result.engine.flowSource,
         /** The verdict's rule and numbers on flow and head (quantity tokens, rendered by the loader), or null. */
         cross: crossSummary(check.result),
+        /** The verdict the list shows: today's with its rule and numbers, the stored one beside it where they differ (listed-verdict.ts). */
+        shown: check.shown,
       };
     }),
     fields,

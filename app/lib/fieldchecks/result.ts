@@ -5,6 +5,12 @@ import type { Verdict } from "./form";
 import type { PowerGrade } from "./power-grade";
 import { PUBLISHED_PART } from "./curve-ends";
 
+/** The stored result's format label (evaluate.ts writes it into every result). */
+export const FIELD_CHECK_FORMAT = "dutymark-fieldcheck/1";
+
+/** How the note of a check marginal within its readings' uncertainty begins (evaluate.ts): the point that meets the grade and the uncertainty. */
+export const MARGINAL_NOTE = "At the tolerance limit:";
+
 export type Pt = { flow: number; y: number };
 
 export type CheckResult = {

@@ -6,7 +6,7 @@
 import { describe, expect, test } from "vitest";
 import { fluidAt } from "~/engine";
 import { evaluateCheck, parseCheckFields } from "./index";
-import { SPEED_RANGE } from "./evaluate";
+import { SPEED_RANGE } from "./speed-range";
 import { fieldsForHead, frozenFixture } from "~/test/fieldcheck-fixture";
 
 const RHO20 = fluidAt({ kind: "water" }, 20).density;

@@ -156,6 +156,18 @@ export function readStoredCheck(row: { readingsJson: string; resultJson: string 
 }
 
 /**
+ * A recorded check's readings alone (as `readStoredCheck` reads them), or null where they fail their schema: what a list
+ * needs to judge them again today without reading the stored result.
+ * @param readingsJson the check's stored readings and fields, as stored
+ */
+export function readStoredReadings(readingsJson: string): Readings | null {
+  const readings = readStoredDoc(readingsJson, StoredReadingsSchema, READINGS_WORDS);
+  if (!readings.ok) return null;
+  const stored = readings.raw as { readings: Readings; fields: CheckFields };
+  return blanksNotGiven(stored.readings, stored.fields);
+}
+
+/**
  * What a list says of a check whose stored record cannot be read, in place of its numbers and verdict: how many problems
  * and where ("2 problems: readings, suction gauge, pressure; result, delivered point, head").
  */

@@ -3,7 +3,8 @@
 import { EngineInputError } from "~/engine";
 import { formId } from "../shared/forms.server";
 import type { Viewer } from "../libraries";
-import { evaluateCheck, gradeById } from "./evaluate";
+import { evaluateCheck } from "./evaluate";
+import { gradeById } from "./frozen-curve";
 import { parseCheckFields, type CheckFields } from "./form";
 import { PhotoRejected, readPhotos } from "./photos.server";
 import { CheckConflict, CLIENT_ID, fieldSelection, recordFieldCheck } from "./records.server";
