@@ -161,7 +161,7 @@ describe("impeller diameters beside the published smallest and largest (the mode
 });
 
 describe("the search's reasons: NPSH margin and BEP position beside 'below' and 'outside POR'", () => {
-  const row = (npshMargin: number, bepRatio: number): Candidate => ({ id: "x", label: "P", method: "direct", ratio: 1, diameter: null, speed: null, headAtDuty: 20,
+  const row = (npshMargin: number, bepRatio: number): Candidate => ({ id: "x", label: "P", method: "direct", ratio: 1, diameter: null, speed: null, headAtDuty: 20, direct: { flow: 0.01, head: 20, headHigh: 21, publishedHead: 20 },
     efficiency: 0.7, bepRatio, inPor: bepRatio >= 0.7 && bepRatio <= 1.2, npshr: 3, npshMargin, shaftPower: 5000, score: 0.5, rank: 0, reason: "", warnings: [] });
   it("sweep: margins just below 1.1 and 1.3, BEP ratios just outside 70 % and 120 % (POR, ANSI/HI 9.6.3 from memory)", () => {
     for (const req of [1.1, 1.3]) for (const off of [-1e-3, -1e-4, -1e-5]) for (const bep of [0.7 * (1 + off), 1.2 * (1 - off)]) {
@@ -178,7 +178,7 @@ describe("the search's reasons: NPSH margin and BEP position beside 'below' and 
 });
 
 describe("search reasons against the row above: BEP positions and scores apart at their printed digits", () => {
-  const row = (bepRatio: number, score: number): Candidate => ({ id: String(score), label: "P", method: "direct", ratio: 1, speed: null, diameter: null, headAtDuty: 30,
+  const row = (bepRatio: number, score: number): Candidate => ({ id: String(score), label: "P", method: "direct", ratio: 1, speed: null, diameter: null, headAtDuty: 30, direct: { flow: 0.01, head: 30, headHigh: 31.5, publishedHead: 30 },
     efficiency: 0.7, bepRatio, inPor: true, npshr: 3, npshMargin: 2, shaftPower: 5000, score, rank: 0, reason: "", warnings: [] });
   it("a row 0.5 % from BEP below one at BEP reads 99.5 % against 100 %, not 100 % against 100 % (hand-written case)", () => {
     const [, b] = explainRanks([row(1, 0.6), row(0.995, 0.59)], 2, 1.1);

@@ -63,6 +63,12 @@ export interface Candidate {
   speed: number | null;
   /** Head the (modified) curve gives at the duty flow, m. */
   headAtDuty: number;
+  /**
+   * The direct fit's numbers, whatever the method: the duty searched (flow m³/s, head m), the window's top H_d·(1 + tol), m,
+   * and the curve's head as published at the duty flow, m (null: the duty flow is outside its published flows). Direct
+   * when that head is within [head, headHigh], each end to 1 part in 10⁸ (LIMIT_ROUNDING), so every row can say why.
+   */
+  direct: { flow: number; head: number; headHigh: number; publishedHead: number | null };
   /** Efficiency at duty (fraction), null if the curve has none. */
   efficiency: number | null;
   /** Q_d / Q_BEP of the (modified) curve, dimensionless. */
@@ -127,7 +133,7 @@ export function searchDuty(
 
   // Every match is kept as numbers in parallel arrays (no object per match: a large library can match
   // tens of thousands of sets); only the `limit` best become Candidate objects.
-  const fE: number[] = [], fMethod: number[] = [], fRatio: number[] = [], fHead: number[] = [];
+  const fE: number[] = [], fMethod: number[] = [], fRatio: number[] = [], fHead: number[] = [], fH1: (number | null)[] = [];
   const fEff: (number | null)[] = [], fBep: (number | null)[] = [], fNpshr: (number | null)[] = [], fMargin: (number | null)[] = [], fPower: (number | null)[] = [];
   const METHODS = ["direct", "trim", "speed"] as const;
   let rejectedByEnvelope = 0, evaluated = 0, rejectedByNpsh = 0;
@@ -177,7 +183,7 @@ export function searchDuty(
     // at zero (the caller's NPSHa ≤ 0) beside any NPSHr at the duty, 0 included: the liquid boils at the inlet whatever the
     // pump (an NPSHr read as 0, 5e-324 m × a speed ratio² below ½, had no ratio and kept the pump).
     if (npshr !== null && (npsha === 0 || (npshMargin !== null && npshRatioBelow(npshMargin, 1)))) { rejectedByNpsh++; continue; }
-    fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty);
+    fE.push(e); fMethod.push(method); fRatio.push(ratio); fHead.push(headAtDuty); fH1.push(h1);
     fEff.push(eff); fBep.push(bepRatio); fNpshr.push(npshr); fMargin.push(npshMargin);
     fPower.push(eff !== null && eff > 0 ? (rho * G0 * qd * headAtDuty) / eff : null);
   }
@@ -200,7 +206,7 @@ export function searchDuty(
       id: ids[e], label: idx.labels[e], method, ratio,
       diameter: idx.diameter[e] < 0 ? null : method === "trim" ? idx.diameter[e] * ratio : idx.diameter[e],
       speed: idx.speed[e] < 0 ? null : method === "speed" ? idx.speed[e] * ratio : idx.speed[e],
-      headAtDuty: fHead[j], efficiency: fEff[j], bepRatio, inPor: bepRatio === null ? null : insideEnds(bepRatio, POR_FRACTION.min, POR_FRACTION.max),
+      headAtDuty: fHead[j], direct: { flow: qd, head: hd, headHigh: hdHigh, publishedHead: fH1[j] }, efficiency: fEff[j], bepRatio, inPor: bepRatio === null ? null : insideEnds(bepRatio, POR_FRACTION.min, POR_FRACTION.max),
       npshr: fNpshr[j], npshMargin: fMargin[j], shaftPower: fPower[j], score: score[j], rank: 0, reason: "", warnings,
     };
   });

@@ -21,10 +21,10 @@ import { npshaAtDutyNote, npshLeftOutText } from "~/lib/projects/search-npsha";
 import { bepPercentText, npshJudgedRange, npshLowestText, npshMarginText, npshUnjudgedText } from "~/components/candidate-figures";
 import { routeErrorBoundary } from "~/components/RouteError";
 import { PageHead } from "~/components/PageHead";
-import { renderDeep, fmtFlow, fmtHead, fmtNum, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
+import { renderDeep, fmtFlow, fmtHead, fmtPct, fmtPower, labelOf } from "~/lib/shared/units";
 import { readSearchFilters } from "~/lib/projects/search-filters";
 import { Pager } from "~/components/Pager";
-import { publishedOf, settingToken } from "~/lib/projects/setting-step";
+import { METHOD_TEXT, searchHowText } from "~/lib/projects/search-how";
 import { qt } from "~/engine/quantityText";
 
 export const meta: Route.MetaFunction = () => [{ title: "Find pumps · Dutymark" }];
@@ -100,9 +100,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       pick: `${r.curveSetId}:${r.method}${pickSuffix(r.arrangement)}`,
       // Several pumps: the duty pumps' operating point together and each pump's share (shaftPower is theirs together); one pump shows neither.
       ...(several ? { operatingPoint: r.operatingPoint, perPump: r.perPump } : {}),
-      // The setting the verdict judged, with the rule it was found by (the How cell's title).
-      // The rpm or Ø by the candidates table's rule (setting-step.ts; in the reader's units, a trim's whole mm beside inches).
-      how: r.method === "direct" ? "as published" : `${METHOD_TEXT[r.method]} to ${fmtNum(r.ratio * 100, 1)} %${(r.method === "speed" && r.speed != null) || (r.method === "trim" && r.diameter != null) ? ` (${settingToken(r.method, r.ratio, publishedOf(r.method, r.ratio, { speed: r.speed, diameter: r.diameter }), true)})` : ""}`,
+      // The setting the verdict judged (setting-step.ts), the rule it was found by (the title), the direct rule's words (printed).
+      how: searchHowText(r),
+      directRule: r.directRule,
       howRule: r.ratioNote,
       efficiency: r.efficiency,
       bepRatio: r.bepRatio,
@@ -171,7 +171,6 @@ function readPicks(values: unknown[], field: "one" | "add") {
 /** The engine's warnings of a search row, each once and not already among its cautions. */
 const searchWarningsOf = (ws: readonly { message: string }[], cautions: readonly string[]) => [...new Set(ws.map((w) => w.message))].filter((w) => !cautions.includes(w));
 
-const METHOD_TEXT = { direct: "as published", trim: "trim", speed: "slow down" } as const;
 
 /** A row's maker's-minimum-flow note (verdict-min-flow.ts `verdictMinFlowNote`) under `verdictMinFlow`, or nothing where it says nothing. */
 function minFlowOf(verdict: { status: string } | null, check: unknown): { verdictMinFlow?: string } {
@@ -313,6 +312,7 @@ export default function Search({ actionData }: Route.ComponentProps) {
                     </td>
                     <td title={r.howRule ?? undefined} data-testid={`search-how-${r.curveSetId}`}>
                       {r.how}
+                      <div className="text-xs text-slate-600" data-testid={`search-direct-${r.curveSetId}`}>{r.directRule}</div>
                       <ArrangementFigures units={sys} basis={basis} words={d.arrangement.words} operatingPoint={r.operatingPoint ?? null} perPump={r.perPump ?? null} testId={`search-arrangement-${r.curveSetId}`} />
                     </td>
                     <td className="max-w-xs">

@@ -131,7 +131,9 @@ describe("the read API and the page carry the same", () => {
     const { html } = await loadedPage(fx.m, searchPage, "/systems/:id/search", `/systems/${typed38}/search?beyond=1`, { id: String(typed38) });
     const row = find((await search(typed38)).results, "TFS Meregate 200", 295, "speed")!;
     const cell = (id: string) => new RegExp(`data-testid="${id}"[^>]*>(.*?)</(td|p)>`, "s").exec(html)?.[1] ?? "";
-    expect(cell(`search-how-${row.curveSetId}`)).toBe(`slow down to 57.9 % (${Math.round(row.speed!)} rpm)`);
+    expect(cell(`search-how-${row.curveSetId}`).split("<div")[0]).toBe(`slow down to 57.9 % (${Math.round(row.speed!)} rpm)`);
+    // The direct rule printed under it with its numbers (search-how.ts; common practice: as published within the duty head to × 1.05).
+    expect(cell(`search-direct-${row.curveSetId}`)).toMatch(/^Not direct: its head as published at the duty flow 40\.0 m³\/h is [\d.]+ m, above the window of the duty head 38(\.0)? m to duty head × 1\.05 = 39\.9 m/); // slowed down: its head as published is above
     expect(cell(`search-power-${row.curveSetId}`)).toBe(`${(row.shaftPower! / 1000).toFixed(2)} kW`);
     expect(cell("search-figures-rule")).toMatch(/at the band's demanding edge \(32\.6 m, most lift, aged pipe\), and the figures at its operating point, .* The rank is the search's score at the typed duty \(40\.0 m³\/h at 38\.0 m\)/);
   });
@@ -149,5 +151,8 @@ describe("the read API and the page carry the same", () => {
     const td = new RegExp(`<td title="([^"]*)" data-testid="search-how-${row.curveSetId}"[^>]*>(.*?)<`, "s").exec(html);
     expect(td?.[2]).toBe("trim to 88.2 % (Ø6.77 in [172 mm])");
     expect(td?.[1]).toContain("set and judged at Ø6.77 in [172 mm]: rounded up to the next whole mm"); // the rule beside it says so
+    // The direct rule in the reader's units (US: gpm and ft), with the row's numbers.
+    const direct = new RegExp(`data-testid="search-direct-${row.curveSetId}"[^>]*>(.*?)</div>`, "s").exec(html)?.[1] ?? "";
+    expect(direct).toMatch(/^Not direct: its head as published at the duty flow [\d.,]+ gpm is [\d.,]+ ft, above the window of the duty head [\d.,]+ ft to duty head × 1\.05 = [\d.,]+ ft/);
   });
 });

@@ -25,7 +25,7 @@ afterAll(() => closeDb());
 const M3H = 1 / 3600;
 const PARALLEL: Adjustment = { ...DEFAULT_ADJUSTMENT, arrangement: "parallel", dutyPumps: 2 };
 /** The one line: 37–38 m static, pump 1 alone holds 40.5 m (least lift) and 41.5 m (most lift), above the 40 m shut-off. */
-const LINE = "At both edges of the band, with 1 pump running in parallel the system holds 40.5 m at 56.1 m³/h (least lift, new pipe) and 41.5 m at 46.7 m³/h (most lift, aged pipe), above one pump's shut-off head 40.0 m: pump 2 of 2, started then, cannot open its check valve, so only 1 of the 2 deliver and it runs at zero flow against its closed check valve (dead-head), churning and heating the liquid, below any minimum continuous flow (common practice: a pump in parallel starts against the head of those running; above its shut-off head by more than 1 part in 10⁸)";
+const LINE = "At both edges of the band, with 1 pump running in parallel the system holds 40.5 m at 56.1 m³/h (least lift, new pipe) and 41.5 m at 46.7 m³/h (most lift, aged pipe), above one pump's shut-off head 40.0 m: pump 2 of 2, started then, cannot open its check valve, so only 1 of the 2 deliver and it runs at zero flow against its closed check valve (dead-head), churning and heating the liquid, below any minimum continuous flow (common practice: a pump in parallel starts against the head of those running; at or above its shut-off head, to 1 part in 10⁸, it delivers no flow)";
 const START = /cannot open its check valve, so only/;
 
 let m: TestMember;

@@ -144,6 +144,8 @@ describe("GET /api/v1/systems/:id/search", () => {
       expect(["none", "speed", "trim"]).toContain(x.adjustment.kind);
       expect(x.adjustment.kind).toBe(p.method === "direct" ? "none" : p.method);
       expect(x.adjustment.ratio).toBe(p.ratio);
+      expect(x.adjustment.directRule).toMatch(/^(Direct|Not direct): .* to duty head × 1\.05 = /); // the direct rule with its numbers, tokens rendered (common practice: 5 % over the duty head)
+      expect(x.adjustment.directRule).not.toContain("⟦");
       if (x.adjustment.kind === "speed" && x.curve.speed !== null) expect(x.adjustment.speed!).toBeCloseTo(x.curve.speed * x.adjustment.ratio, 6); // affinity laws
       if (x.adjustment.kind === "trim" && x.curve.impellerDiameter !== null) expect(x.adjustment.diameter!).toBeCloseTo(x.curve.impellerDiameter * x.adjustment.ratio, 9);
       if (x.adjustment.kind === "none") expect(x.adjustment.ratio).toBe(1);
@@ -188,7 +190,7 @@ describe("searchResultView (pure)", () => {
     id: "7", rank: 1, label: "X", method: "trim" as const, ratio: 0.9, speed: 2900, diameter: 0.171, headAtDuty: 30, efficiency: 0.7,
     bepRatio: 1, inPor: true, npshr: 2, npshMargin: 3, shaftPower: 5000, score: 0.6, reason: "r", warnings: [{ code: "w", message: "trim approx" }],
     curveSetId: 7, modelId: 3, model: "X", type: "inline", size: "DN50", library: "L", setSpeed: 2900, setDiameter: 0.19, verdict: null, npsh: null,
-    ratioNote: null, operatingPoint: null, atTypedDuty: { ratio: 0.92, speed: 2900, diameter: 0.175, efficiency: 0.68, shaftPower: 5200, bepRatio: 0.9, inPor: true },
+    ratioNote: null, directRule: "Not direct: (invented words)", operatingPoint: null, atTypedDuty: { ratio: 0.92, speed: 2900, diameter: 0.175, efficiency: 0.68, shaftPower: 5200, bepRatio: 0.9, inPor: true },
   };
   test("maps method → adjustment.kind and passes a verdict through when the result has one, else null", () => {
     expect(searchResultView(base)).toMatchObject({ modelId: 3, library: "L", verdict: null,

@@ -20,7 +20,7 @@ describe("two drooping pumps in parallel: pump 2 cannot start at both edges", ()
     const e = parallel(37, 38);
     const w = lines(e.warnings, /cannot open its check valve/);
     expect(w).toEqual([ // old code: two lines, "At least lift, new pipe, with 1 pump running … holds 40.5 m at 56.1 m³/h, …" and "At most lift, aged pipe, … 41.5 m at 46.7 m³/h, …"
-      "At both edges of the band, with 1 pump running in parallel the system holds 40.5 m at 56.1 m³/h (least lift, new pipe) and 41.5 m at 46.7 m³/h (most lift, aged pipe), above one pump's shut-off head 40.0 m: pump 2 of 2, started then, cannot open its check valve, so only 1 of the 2 deliver and it runs at zero flow against its closed check valve (dead-head), churning and heating the liquid, below any minimum continuous flow (common practice: a pump in parallel starts against the head of those running; above its shut-off head by more than 1 part in 10⁸)",
+      "At both edges of the band, with 1 pump running in parallel the system holds 40.5 m at 56.1 m³/h (least lift, new pipe) and 41.5 m at 46.7 m³/h (most lift, aged pipe), above one pump's shut-off head 40.0 m: pump 2 of 2, started then, cannot open its check valve, so only 1 of the 2 deliver and it runs at zero flow against its closed check valve (dead-head), churning and heating the liquid, below any minimum continuous flow (common practice: a pump in parallel starts against the head of those running; at or above its shut-off head, to 1 part in 10⁸, it delivers no flow)",
     ]);
     expect(lines(e.cautions, /cannot open its check valve/)).toEqual(w); // the search row's and the verdict's cautions: the same one line
   });

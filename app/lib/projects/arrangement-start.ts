@@ -1,15 +1,17 @@
 // Whether every pump of a parallel or series arrangement can run (pure; used by evaluateCandidate). The rule is the one
 // solveOperatingPoint applies to the arrangement (common practice, from memory): a pump starts against a closed check
 // valve, so its head at zero flow (the shut-off head) must exceed the head it starts against, else it never delivers.
-// - Parallel: a pump started while others run starts against the head they hold on the system. When that head is above
-//   its shut-off head its check valve stays shut: only the pumps already running deliver, and the one started dead-heads.
+// - Parallel: a pump started while others run starts against the head they hold on the system. When that head is at or
+//   above its shut-off head its check valve stays shut: only the pumps already running deliver, and the one started dead-heads.
 // - Series: with one pump stopped or tripped, the rest must lift the liquid alone. When their shut-off head together is
-//   below the system's head at zero flow, no flow passes: they dead-head (the stopped pump's own loss is left out, which
-//   flatters them).
+//   at or below the system's head at zero flow, no flow passes: they dead-head (the stopped pump's own loss is left out,
+//   which flatters them).
+// Both "at" to 1 part in 10⁸ (LIMIT_ROUNDING): a pump whose shut-off head equals the head against it delivers zero flow,
+// so it is flagged in both (common practice; before, parallel took equal heads as a start while series flagged them).
 // Judged at each edge of the band (candidate-judgement.ts bandEdges), each warning with its numbers.
 import { bandEdges } from "./candidate-judgement";
 import { combinePumps, solveOperatingPoint, systemHeadFunction, type PreparedSystem, type PumpCurve } from "~/engine";
-import { pastAbove, qt, qtExact, qtLimit } from "~/engine/quantityText";
+import { pastAbove, pastBelow, qt, qtExact, qtLimit } from "~/engine/quantityText";
 
 type StartCtx = {
   mode: "open" | "closed-loop";
@@ -42,10 +44,9 @@ function stagedAt(ctx: StartCtx, at: string, sys: (q: number) => number): Staged
   for (let k = 1; k < ctx.n; k++) {
     const op = solveOperatingPoint(k === 1 ? ctx.curve : combinePumps(ctx.curve, { mode: "parallel", duty: k }).curve, sys);
     if (op.head == null || op.flow == null) return null; // k pumps do not run here: the band says why
-    // Above it by more than LIMIT_ROUNDING (1 part in 10⁸, engine limitText.ts `pastAbove`): within it the held head is at
-    // the shut-off head, as the solver's start rule takes a shut-off head equal to the system's to rounding (it starts,
-    // at zero flow); before, a held head 1e-12 above the shut-off was "cannot open" and 1e-12 below was not.
-    if (pastAbove(op.head, shutoff)) return { at, running: k, of: ctx.n, heldHead: op.head, shutoffHead: shutoff, flow: op.flow };
+    // At or above it, to LIMIT_ROUNDING (1 part in 10⁸, engine limitText.ts `pastBelow`): at equal heads the pump started
+    // delivers zero flow, as the series rule below says (before, equal heads were taken as a start here, flagged there).
+    if (!pastBelow(op.head, shutoff)) return { at, running: k, of: ctx.n, heldHead: op.head, shutoffHead: shutoff, flow: op.flow };
   }
   return null;
 }
@@ -85,7 +86,8 @@ export function arrangementStartWarnings(ctx: StartCtx, staged: readonly StagedS
       const own = qtLimit("head", shutoffHead, g.map((s) => s.heldHead)); // never read as equal to a held head beside "above"
       const where = g.length === 1 ? `At ${g[0].at}, with` : `At both edges of the band, with`;
       const holds = g.length === 1 ? held[0] : listed(g.map((s, i) => `${held[i]} (${s.at})`));
-      return `${where} ${running} pump${running > 1 ? "s" : ""} running in parallel the system holds ${holds}, above one pump's shut-off head ${own}: pump ${running + 1} of ${n}, started then, cannot open its check valve, so only ${running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running; above its shut-off head by more than 1 part in 10⁸)`;
+      const side = g.some((s) => pastAbove(s.heldHead, shutoffHead)) ? "above" : "at"; // at: within 1 part in 10⁸ of it
+      return `${where} ${running} pump${running > 1 ? "s" : ""} running in parallel the system holds ${holds}, ${side} one pump's shut-off head ${own}: pump ${running + 1} of ${n}, started then, cannot open its check valve, so only ${running} of the ${n} deliver and ${DEAD_HEAD} (common practice: a pump in parallel starts against the head of those running; at or above its shut-off head, to 1 part in 10⁸, it delivers no flow)`;
     });
   }
   const left = n - 1;
@@ -95,7 +97,8 @@ export function arrangementStartWarnings(ctx: StartCtx, staged: readonly StagedS
   const failing = bandEdges(ctx.mode).flatMap(({ name, which }) => {
     const sys = systemHeadFunction(ctx.prepared, which);
     const op = solveOperatingPoint(rest, sys);
-    return op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0 ? [] : [{ name, system: sys(0) }];
+    // Not started, or at zero flow, or a shut-off head at the system's to 1 part in 10⁸ (the parallel rule's allowance).
+    return op.status !== "no-intersection-shutoff-below-static" && op.flow !== 0 && pastAbove(head0, sys(0)) ? [] : [{ name, system: sys(0) }];
   });
   if (!failing.length) return [];
   const theirs = qtExact("head", head0, failing.map((f) => f.system));

@@ -36,6 +36,8 @@ export type SearchResultIn = Pick<
   minFlow?: unknown;
   /** How the verdict's ratio was found (solved against the system's head at the band's demanding edge), in words. */
   ratioNote: string | null;
+  /** The search's direct rule with the row's numbers: its head as published at the duty flow against the window (search-how.ts). */
+  directRule: string;
   /** The operating point the figures are at (m³/s, m), null without one: the duty pumps' together for several. */
   operatingPoint: { flow: number; head: number } | null;
   /** The arrangement judged (absent: one pump), one pump's operating point and shaft power (absent: as the row's). */
@@ -57,8 +59,11 @@ export type SearchResultView = {
   library: string;
   /** The published curve searched: speed, rpm; impeller diameter, m. */
   curve: { speed: number | null; impellerDiameter: number | null };
-  /** How the pump meets the duty as its verdict judged it: none (as published), speed (affinity laws) or trim (approximate); `note` how the ratio was found. */
-  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null } & SearchArrangement;
+  /**
+   * How the pump meets the duty as its verdict judged it: none (as published), speed (affinity laws) or trim (approximate); `note` how
+   * the ratio was found; `directRule` why it is or is not met as published, with the row's numbers (search-how.ts).
+   */
+  adjustment: { kind: "none" | "speed" | "trim"; ratio: number; speed: number | null; diameter: number | null; note: string | null; directRule: string } & SearchArrangement;
   /** The verdict the search gives this result ({ status, rule, reasons }), or null when the search gives none. */
   verdict: unknown;
   /** What NPSH over the band says against the verdict, in words with its numbers ("but NPSHa … below NPSHr … at …: cavitation risk"), or null (verdict-npsh.ts). */
@@ -112,7 +117,7 @@ export function searchResultView(r: SearchResultIn): SearchResultView {
     size: r.size,
     library: r.library,
     curve: { speed: r.setSpeed, impellerDiameter: r.setDiameter },
-    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote, ...(r.arrangement ?? SINGLE_PUMP) },
+    adjustment: { kind: KIND[r.method], ratio: r.ratio, speed: r.speed, diameter: r.diameter, note: r.ratioNote, directRule: r.directRule, ...(r.arrangement ?? SINGLE_PUMP) },
     verdict: r.verdict ?? null,
     verdictNpsh: verdictNpshNote(r.verdict as { status: string } | null | undefined, r.npsh as NpshJudgement | null | undefined),
     verdictStart: verdictStartNote(r.verdict as { status: string } | null | undefined, r.stagedStart),

@@ -16,6 +16,7 @@ import type { NpshJudgement } from "./candidate-judgement";
 import type { StagedShortfall } from "./verdict-start";
 import { marginRatioText } from "./npsh-ratio";
 import { judgeSearchRow, type Judged, type JudgedSetting } from "./search-judge";
+import { directRuleText } from "./search-how";
 import { arrangementKey, arrangementRule, dutyShare, rankedAtText, severalPumps, shareName, SINGLE_PUMP, type SearchArrangement } from "./search-arrangement";
 import { curvesOfRevisions, searchableRevisions, type LibraryCurveSet, type Viewer } from "../libraries";
 import type { MinFlowCheck } from "./verdict-min-flow";
@@ -262,6 +263,8 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
   const results = upTo.slice(first).map(({ set: s, libraries, verdict, npsh, cautions, stagedStart, minFlow, shown }, j) => ({
     ...rows[first + j],
     ...shownRow(rows[first + j], shown, system.input.duty!, arrangement),
+    /** The search's direct rule with this row's numbers (search-how.ts): why it is, or is not, met as published. */
+    directRule: directRuleText(rows[first + j].direct, searchedDutyName(rows[first + j].direct, duty, arrangement, plan)),
     /** The arrangement every row is judged in (one pump, or pumps in parallel or series). */
     arrangement,
     curveSetId: s.id,
@@ -284,6 +287,12 @@ export async function searchForSystem(viewer: Viewer, systemId: number, filters:
     minFlow,
   }));
   return { system, results, locked, arrangement: { ...arrangement, searchedDuty: duty, rule: arrangementRule(system.input.duty, arrangement) }, stats: res.stats, npshaAtDuty, hidden: { outsideCatalogue: filters.allowBeyondCatalogue ? 0 : outsideCatalogue, duplicates, overPower }, leftOut: leftOutSummary(prepared.leftOut), dutyCheck: evaluation.dutyCheck, liquidSearch: plan, powerFilter, catalogueFilter, paging, message: null as string | null };
+}
+
+/** The duty a row was searched at, named where it is not the typed duty: one pump's share, the liquid's water duty. */
+function searchedDutyName(d: EngineCandidate["direct"], duty: { flow: number; head: number }, a: SearchArrangement, plan: LiquidSearchPlan | null): string | undefined {
+  const onWater = plan && (d.flow !== duty.flow || d.head !== duty.head) ? `the equivalent water duty on ${plan.liquid} (ANSI/HI 9.6.7)` : undefined;
+  return [shareName(a), onWater].filter(Boolean).join(", at ") || undefined;
 }
 
 /** What `groupAndJudge` reads: the prepared search, library names, the workspace's own libraries, the kept verdicts, the system and the filters. */

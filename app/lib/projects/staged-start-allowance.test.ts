@@ -1,12 +1,13 @@
-// A pump in parallel started while others run cannot open its check valve when the head they hold is above its shut-off
-// head (common practice, from memory: arrangement-start.ts `parallelStaging`). That comparison had no allowance: a held
-// head 1 part in 10¹² above the shut-off was "cannot open" and one 1e-12 below was not, so round-off alone decided the
-// staged start. Now above by more than LIMIT_ROUNDING (1 part in 10⁸, engine limitText.ts `pastAbove`): within it the held
-// head is at the shut-off, as the solver's own start rule takes a shut-off head equal to the system's to rounding (it
-// starts, at zero flow). Check values: the rule (common practice); the curve is the invented drooping pump of
-// test/droop-pump.ts (40 m shut-off, 41.9 m peak), the system a static head and one pipe run (aged as new, so both band
-// edges alike), its static set so that one pump alone holds the head wanted, on its falling branch past the hump
-// (geometry: the crossing's flow read off the curve, the pipe's loss there taken off).
+// A pump in parallel started while others run cannot open its check valve when the head they hold is at or above its
+// shut-off head (common practice: a pump whose shut-off head equals the head against it delivers zero flow, so it cannot
+// open its check valve against it; arrangement-start.ts `parallelStaging`), to LIMIT_ROUNDING (1 part in 10⁸, engine
+// limitText.ts `pastBelow`). Pumps in series left running when one stops are flagged by the same rule: their shut-off
+// head at or below the system's head at zero flow. Before, parallel took equal heads as a start while series flagged
+// them. Check values: the rule (common practice); the curve is the invented drooping pump of test/droop-pump.ts (40 m
+// shut-off, 41.9 m peak), the system a static head and one pipe run (aged as new, so both band edges alike); in
+// parallel its static set so that one pump alone holds the head wanted, on its falling branch past the hump (geometry:
+// the crossing's flow read off the curve, the pipe's loss there taken off); in series the static head is the system's
+// head at zero flow.
 import { describe, expect, it } from "vitest";
 import { createPumpCurve, flowsAtHead, fluidAt, prepareSystem, systemHeadFunction } from "~/engine";
 import { inSI, LIMIT_ROUNDING } from "~/engine/quantityText";
@@ -25,10 +26,10 @@ function ctx(held: number) {
   return { mode: "open" as const, prepared: prepareSystem({ fluid: water, staticHead: held - loss(q), discharge: RUN }), curve, arrangement: "parallel" as const, n: 2 };
 }
 
-describe("pump 2 of 2 against the head pump 1 holds: flagged only above the shut-off by more than 1 part in 10⁸", () => {
-  // Relative offsets of the static head (= the held head) from the 40 m shut-off; within the allowance on both sides, the
-  // same answer (not flagged); past it above, flagged; past it below, not.
-  const cases: [number, boolean][] = [[-2 * LIMIT_ROUNDING, false], [-1e-12, false], [1e-12, false], [0.5 * LIMIT_ROUNDING, false], [2 * LIMIT_ROUNDING, true], [1e-4, true]];
+describe("pump 2 of 2 against the head pump 1 holds: flagged at or above the shut-off, to 1 part in 10⁸", () => {
+  // Relative offsets of the held head from the 40 m shut-off; at it and within the allowance on both sides, flagged (no
+  // flow at equal heads); past it below, not.
+  const cases: [number, boolean][] = [[-1e-6, false], [-2 * LIMIT_ROUNDING, false], [-1e-12, true], [0, true], [1e-12, true], [0.5 * LIMIT_ROUNDING, true], [2 * LIMIT_ROUNDING, true], [1e-6, true], [1e-4, true]];
   for (const [off, flagged] of cases)
     it(`held head 40 m × (1 ${off < 0 ? "−" : "+"} ${Math.abs(off)}): ${flagged ? "cannot open its check valve" : "starts"}`, () => {
       const c = ctx(SHUTOFF * (1 + off));
@@ -37,7 +38,25 @@ describe("pump 2 of 2 against the head pump 1 holds: flagged only above the shut
       if (!flagged) return;
       // The words name the held head apart from the shut-off, above it, and the allowance.
       const [line] = arrangementStartWarnings(c, staged).map(inSI);
-      expect(line).toMatch(/holds 40\.0\d* m at [\d.]+ m³\/h \(least lift, new pipe\) and 40\.0\d* m at [\d.]+ m³\/h \(most lift, aged pipe\), above one pump's shut-off head 40\.0 m: pump 2 of 2/);
-      expect(line).toContain("above its shut-off head by more than 1 part in 10⁸");
+      const side = off > LIMIT_ROUNDING ? "above" : "at"; // within the allowance the held head is at the shut-off
+      expect(line).toMatch(new RegExp(`holds 40\\.0\\d* m at [\\d.]+ m³/h \\(least lift, new pipe\\) and 40\\.0\\d* m at [\\d.]+ m³/h \\(most lift, aged pipe\\), ${side} one pump's shut-off head 40\\.0 m: pump 2 of 2`));
+      expect(line).toContain("at or above its shut-off head, to 1 part in 10⁸, it delivers no flow");
     });
+});
+
+describe("2 pumps in series, one stopped: the one left is flagged by the same rule, its shut-off head at or below the system's at zero flow", () => {
+  // Relative offsets of the static head (the system's head at zero flow) from the 40 m shut-off: at it, and above it,
+  // flagged; 1e-6 below it, the pump left starts.
+  const series = (off: number) => ({ mode: "open" as const, prepared: prepareSystem({ fluid: water, staticHead: SHUTOFF * (1 + off), discharge: RUN }), curve, arrangement: "series" as const, n: 2 });
+  const cases: [number, boolean][] = [[-1e-6, false], [0, true], [0.5 * LIMIT_ROUNDING, true], [-0.5 * LIMIT_ROUNDING, true], [1e-6, true]];
+  for (const [off, flagged] of cases)
+    it(`system at zero flow 40 m × (1 ${off < 0 ? "−" : "+"} ${Math.abs(off)}): ${flagged ? "no flow passes" : "the pump left delivers"}`, () => {
+      const w = arrangementStartWarnings(series(off)).map(inSI);
+      expect(w.length).toBe(flagged ? 1 : 0);
+      if (flagged) expect(w[0]).toMatch(/^At both edges of the band, with one of the 2 pumps in series stopped or tripped, the pump left running gives (40|39\.9)[\d.]* m at zero flow against the system's (40|39\.9)[\d.]* m \(least lift, new pipe\)/);
+    });
+  it("the same case both ways: held head = shut-off head in parallel is flagged as series flags it", () => {
+    expect(parallelStaging(ctx(SHUTOFF)).length).toBe(2);
+    expect(arrangementStartWarnings(series(0)).length).toBe(1);
+  });
 });

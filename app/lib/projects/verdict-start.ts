@@ -1,12 +1,12 @@
 // The verdict's headline qualified by how pumps in parallel are started. The duty verdict (engine verdict.ts) judges the
 // arrangement's combined curve, as if every duty pump started at once. Started one after another instead — duty/standby
 // staging, the usual way (common practice, from memory) — a pump starts against the head of those already running, and
-// where that head is above its shut-off head its check valve stays shut (arrangement-start.ts): only those running
+// where that head is at or above its shut-off head its check valve stays shut (arrangement-start.ts): only those running
 // deliver. Where their flow is below the least the verdict accepts, the duty is not met that way, and wherever the
 // verdict is a headline (the candidates table, the report, the chart's label, the CSV) that qualifies it on the same
 // line, with its rule and numbers, as NPSH does (verdict-npsh.ts). Pure; quantities as tokens (quantityText.ts).
 import { LIMIT_ROUNDOFF } from "~/engine";
-import { fmtPctLimit, qt, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
+import { fmtPctLimit, pastAbove, qt, qtExact, qtLimit, qtPair } from "~/engine/quantityText";
 import type { StagedStart } from "./arrangement-start";
 import { againstWord } from "./verdict-npsh";
 
@@ -22,7 +22,7 @@ export type StagedShortfall = StagedStart & {
 };
 
 export const STAGED_START_RULE =
-  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is above its shut-off head by more than 1 part in 10⁸; the duty is not met that way when those running deliver less than duty × (1 − minus tolerance), by more than the verdict's 1 part in 10⁶ (common practice)";
+  "started one after another (duty/standby staging), a pump in parallel starts against the head of those running and cannot open its check valve when that head is at or above its shut-off head, to 1 part in 10⁸ (at equal heads it delivers no flow); the duty is not met that way when those running deliver less than duty × (1 − minus tolerance), by more than the verdict's 1 part in 10⁶ (common practice)";
 
 /**
  * The staged starts that leave the duty unmet: those running deliver less than duty × (1 − minus tolerance) by more than
@@ -59,7 +59,7 @@ export function startAgainstVerdict(shortfalls: unknown): string | null {
     const limit = s.minus > 0
       ? `below the least the verdict accepts, ${qtLimit("flow", s.leastFlow, [s.flow])} (duty ${qt("flow", s.dutyFlow)} × (1 − ${fmtPctLimit(s.minus)}))`
       : `below the duty ${qtLimit("flow", s.dutyFlow, [s.flow])}`;
-    return `at ${s.at} pump ${s.running + 1} of ${s.of} cannot open its check valve against the ${held} ${those} (above its shut-off head ${own}), so only ${s.running} deliver${s.running === 1 ? "s" : ""}, ${qtExact("flow", s.flow, [s.leastFlow, s.dutyFlow])}, ${limit}`;
+    return `at ${s.at} pump ${s.running + 1} of ${s.of} cannot open its check valve against the ${held} ${those} (${pastAbove(s.heldHead, s.shutoffHead) ? "above" : "at"} its shut-off head ${own}), so only ${s.running} deliver${s.running === 1 ? "s" : ""}, ${qtExact("flow", s.flow, [s.leastFlow, s.dutyFlow])}, ${limit}`;
   });
   return `started one after another (duty/standby staging) the duty is not met: ${edges.join("; ")}; the verdict assumes the ${first.of} started together`;
 }
