@@ -46,4 +46,19 @@ describe("flow headers in the exponent spelling are read as written", () => {
     expect(["Speed (min-1)", "n [min⁻¹]", "n 1.min-1"].map((h) => [guessHeader(h).field, guessHeader(h).unit])).toEqual([["speed", "rpm"], ["speed", "rpm"], ["speed", "rpm"]]); // source: min⁻¹ = rpm, common practice
     expect([guessHeader("Q").unit, guessHeader("Q").unitFromHeader]).toEqual(["m3/h", false]); // source: DEFAULT_UNIT.flow
   });
+
+  it.each([
+    ["l·s⁻¹", "l/s", 5e-3], // source: as above
+    ["m³·h⁻¹", "m3/h", 5 / 3600], // source: as above
+    ["L.min-1", "l/min", 5e-3 / 60], // source: as above
+  ])("a units row “%s” under “Q” is merged into it and read as %s (old code: the units row taken for the names)", (u, unit, q) => {
+    const a = analyseCsv(`Model,Speed,Q,H\n,rpm,${u},m\nA,2900,0,20\nA,2900,5,19\nA,2900,10,17\nA,2900,15,14\n`);
+    const col = a.mapping.columns.find((c) => c.index === 2)!;
+    expect([col.header, col.field, col.unit, col.unitSource]).toEqual([`Q ${u}`, "flow", unit, "header"]); // source: units-row.ts (names + units merged)
+    expect(relClose(a.result.curveSets[0]!.points[1]!.flow, q as number)).toBe(true);
+  });
+
+  it("a header that is only the unit, “m³·h⁻¹”, is flow as “m³/h” is (old code: head, its h read as H)", () => {
+    expect([guessHeader("m³·h⁻¹").field, guessHeader("m³·h⁻¹").unit, guessHeader("m³/h").field]).toEqual(["flow", "m3/h", "flow"]); // source: FIELD_RULES reads m3/ as flow
+  });
 });

@@ -23,5 +23,10 @@ export function exponentFlowUnit(norm: string): FlowUnit | null {
   return l ? (L[l[1]] ?? null) : null;
 }
 
-/** True when the header writes a volume per time in the exponent spelling (then "min-1" in it is not a speed). */
-export const namesExponentFlow = (norm: string): boolean => CUBIC_METRE.test(norm) || LITRE.test(norm);
+const ANY = new RegExp(String.raw`(?<![a-z])(?:m3|l|lit|ltr|liters?|litres?|dm3)${INVERSE}`, "g");
+
+/**
+ * The header with its exponent-spelt flow units blanked: its "min-1" is then no speed and its "h" no head, and its digits
+ * are a unit's (units-row.ts). Equal to `norm` when it writes none.
+ */
+export const withoutExponentFlow = (norm: string): string => norm.replace(ANY, " ");

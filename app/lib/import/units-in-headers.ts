@@ -22,7 +22,7 @@ import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
 import { PER_UNIT } from "./per-unit";
 import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
 import type { PowerKind } from "./power-kinds";
-import { exponentFlowUnit, namesExponentFlow } from "./flow-exponents";
+import { exponentFlowUnit, withoutExponentFlow } from "./flow-exponents";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr", "minflow"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -199,8 +199,9 @@ function fieldWords(norm: string): Field {
   if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
   if (MIN_FLOW.test(norm)) return "minflow";
   if (FOERDERLEISTUNG.test(norm) && (detectUnit("flow", norm) ?? refusedAfter("flow", norm)) !== null) return "flow"; // ambiguous-power.ts
-  for (const [field, re] of FIELD_RULES) if (re.test(norm) && !(field === "speed" && namesExponentFlow(norm))) return field; // "L·min⁻¹": flow
-  return "ignore";
+  const words = withoutExponentFlow(norm); // "L·min⁻¹", "m3·h-1": no speed, no head; alone, flow as "m3/h" is (flow-exponents.ts)
+  for (const [field, re] of FIELD_RULES) if (re.test(words)) return field;
+  return words !== norm ? "flow" : "ignore";
 }
 
 export type { PowerKind } from "./power-kinds";
