@@ -20,7 +20,7 @@ const READERS: Record<string, string> = {
 /** `x.json()` with no argument: a body read as JSON (Request or Response; `Response.json(value)` takes one). */
 const JSON_CALL = /([\w$]+|\))\s*\??\.\s*json\s*\(\s*\)/g;
 const FETCH_RESPONSE = /^(?:res|response|resp)$/;
-const RAW_BODY_READ = /\b(?:request|req)\s*\??\.\s*(?:text|arrayBuffer|blob|bytes|body)\b/;
+const RAW_BODY_READ = /\b(?:request|req)\s*(?:\??\.\s*clone\s*\(\s*\))?\s*\??\.\s*(?:text|arrayBuffer|blob|bytes|body)\b/;
 const PARSES_JSON = /JSON\.parse\s*\(|parseStrictJson\s*\(/;
 
 /** What in `src` reads a request body as JSON by itself (empty when nothing does). */
@@ -43,6 +43,7 @@ describe("request bodies are read as JSON only through the project's readers", (
     expect(ownJsonReads("const body = await request.json();")).toEqual(["request.json()"]); // source: the rule above
     expect(ownJsonReads("const b = await req.clone().json();")).toEqual([").json()"]); // source: same
     expect(ownJsonReads("const v = JSON.parse(await request.text());")).toHaveLength(1); // source: same
+    expect(ownJsonReads("const t = await args.request.clone().text(); return parseStrictJson(t);")).toHaveLength(1); // source: same
     expect(ownJsonReads("return (await res.json()) as X; return Response.json(out, { status: 200 });")).toEqual([]); // source: a fetch response, a reply
     expect(ownJsonReads("raw = await request.text(); await handleStripeWebhook(raw, sig);")).toEqual([]); // source: a raw read with no JSON parse (the webhook's signature)
   });
