@@ -7,7 +7,7 @@ import { BACKGROUND_IMPORT_POINTS, runImport, startImport } from "~/lib/librarie
 import { getUploadMeta } from "~/lib/libraries/uploads.server";
 import { AnalysisFailed, summariseUpload } from "~/lib/libraries/upload-analysis.server";
 import type { UploadSummary } from "~/lib/libraries/upload-analysis";
-import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, headerPowerKind, headerUnitRefusal, NUMERIC_FIELDS, powerKindNote, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
+import { blockLabel, ENCODING_LABEL, ENCODINGS, FIELDS, gallonAssumedNote, headerPowerKind, headerUnitRefusal, NUMERIC_FIELDS, powerKindNote, UNITS_BY_FIELD, type NumericField } from "~/lib/import";
 import { saveCorrectedUpload } from "~/lib/libraries/upload-fix.server";
 import { baseMappingOf, editsFromForm, encodingFromForm, impellerUnitOf, mappingFromForm, unitToChoose } from "~/lib/libraries/mapping-form";
 import { viewerOf } from "~/lib/auth/viewer.server";
@@ -253,6 +253,8 @@ export default function UploadPreview() {
               // A header naming a power that is not shaft power (P1, hydraulic, per-unit) or one with two readings (P_w, Förderleistung).
               const notShaft = c.field === "ignore" || c.field === "power" ? headerPowerKind(c.header) : null;
               const notShaftNote = notShaft ? powerKindNote(notShaft, c.field) : null;
+              // "gpm", "gal/min" naming neither gallon: the US gallon, assumed (unit-words.ts).
+              const gallonNote = numeric ? gallonAssumedNote(c.header, c.unit, c.unitSource) : null;
               return (
                 <tr key={c.index} className="border-t border-slate-100">
                   <td className="py-1 font-semibold">{c.header || `column ${c.index + 1}`}</td>
@@ -282,6 +284,8 @@ export default function UploadPreview() {
                       </span>
                     ) : c.unitSource === "default" ? (
                       <span className="ml-1 text-xs text-duty-ink">assumed</span>
+                    ) : gallonNote ? (
+                      <span className="ml-1 text-xs text-duty-ink" data-testid="gallon-assumed">{gallonNote}</span>
                     ) : null}
                   </td>
                   <td className="text-xs">{c.block ? blockLabel(c.block) : ""}</td>

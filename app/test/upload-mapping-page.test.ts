@@ -100,3 +100,20 @@ describe("mapping page: a motor's power and a rated power, assumed ratings", () 
     expect(html).toMatch(/data-testid="rated-power">assumed: a rating \(one figure for all points\)/); // source: importer rule
   });
 });
+
+// "gpm" and "gal/min" with no US or imperial mark are read as the US gallon (NIST SP 811), which is an assumption: the
+// imperial gallon (Weights and Measures Act 1985) is 20.1 % larger. The row says so, as for a unit assumed (smalledges).
+describe("mapping page: a gallon with no US or imperial mark", () => {
+  const file = (q: string) => render(`Model,Speed rpm,${q},Head m\nA,2900,0,20\nA,2900,10,19\nA,2900,20,17\n`);
+  const html = file("Q [gal/min]");
+  it("“Q [gal/min]” is read as US gpm and the row says the US gallon was assumed, with both gallons", () => {
+    expect(selected(selectOf(html, "Unit of Q [gal/min]"))).toBe("gpm"); // source: unit-words.ts (US unless marked imperial)
+    expect(html).toMatch(/data-testid="gallon-assumed">US gallon assumed \(3\.785411784 L\); if the file&#x27;s gallons are imperial \(4\.54609 L, 20\.1 % larger\), choose imp gpm</); // source: NIST SP 811; Weights and Measures Act 1985
+  });
+  it("guard: “Q (US gpm)” names its gallon: read as US gpm with no note (passed before too)", () => {
+    const us = file("Q (US gpm)");
+    expect(selected(selectOf(us, "Unit of Q (US gpm)"))).toBe("gpm"); // source: US_MARK
+    expect(us).not.toContain("gallon-assumed"); // source: the header names the US gallon
+    expect(file("Flow gpm (Imp)")).not.toContain("gallon-assumed"); // source: IMPERIAL_MARK, read as imp gpm
+  });
+});

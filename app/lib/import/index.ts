@@ -153,6 +153,7 @@ export {
   type Field, type PowerKind, type NumericField, type TextField, type Unit, type UnitRefusal,
 } from "./units-in-headers";
 export { powerKindNote, powerKindMessage } from "./power-kinds";
+export { gallonAssumedNote } from "./unit-words";
 export { isUnitCell, unitsRowOf, type UnitsRow } from "./units-row";
 export { parseNumber } from "./numbers";
 export { undefused, textCell } from "./text-cells";

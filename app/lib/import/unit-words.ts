@@ -125,3 +125,14 @@ export function refusedBefore(field: NumericField, norm: string): RefusedWord | 
 export function refusedAfter(field: NumericField, norm: string): RefusedWord | null {
   return first(AFTER[field], norm);
 }
+
+/**
+ * The mapping page's note beside a column read in US gpm from a header that names neither gallon ("gpm", "gal/min"): the
+ * US gallon is assumed (NIST SP 811), and the imperial gallon (Weights and Measures Act 1985) is 20.1 % larger. Null when
+ * the header says which gallon, when the unit is not US gpm, or when the user chose it.
+ */
+export function gallonAssumedNote(header: string, unit: string | null, unitSource: string | undefined): string | null {
+  const norm = header.normalize("NFKC").toLowerCase().replace(/[[\]{}()_]/g, " "); // as normaliseHeader, for these words
+  if (unit !== "gpm" || unitSource === "user" || !GALLONS_PER_MINUTE.test(norm) || US_MARK.test(norm) || IMPERIAL_MARK.test(norm)) return null;
+  return "US gallon assumed (3.785411784 L); if the file's gallons are imperial (4.54609 L, 20.1 % larger), choose imp gpm";
+}

@@ -22,6 +22,7 @@ import { HYDRAULIC_POWER_WORD, namesHydraulicPower } from "./hydraulic-power";
 import { PER_UNIT } from "./per-unit";
 import { FOERDERLEISTUNG, withoutWaterPowerSymbol } from "./ambiguous-power";
 import type { PowerKind } from "./power-kinds";
+import { exponentFlowUnit, withoutExponentFlow } from "./flow-exponents";
 
 export const NUMERIC_FIELDS = ["speed", "impeller", "flow", "head", "efficiency", "power", "npshr", "minflow"] as const;
 export const TEXT_FIELDS = ["model", "type", "size", "notes"] as const;
@@ -198,8 +199,9 @@ function fieldWords(norm: string): Field {
   if (NOT_THE_PUMPS.some((re) => re.test(norm))) return "ignore";
   if (MIN_FLOW.test(norm)) return "minflow";
   if (FOERDERLEISTUNG.test(norm) && (detectUnit("flow", norm) ?? refusedAfter("flow", norm)) !== null) return "flow"; // ambiguous-power.ts
-  for (const [field, re] of FIELD_RULES) if (re.test(norm)) return field;
-  return "ignore";
+  const words = withoutExponentFlow(norm); // "L·min⁻¹", "m3·h-1": no speed, no head; alone, flow as "m3/h" is (flow-exponents.ts)
+  for (const [field, re] of FIELD_RULES) if (re.test(words)) return field;
+  return words !== norm ? "flow" : "ignore";
 }
 
 export type { PowerKind } from "./power-kinds";
@@ -264,6 +266,7 @@ export function detectUnit(field: Field, norm: string): Unit | null {
   switch (field) {
     case "flow":
     case "minflow":
+      if (exponentFlowUnit(norm)) return exponentFlowUnit(norm); // "l·s⁻¹", "m3.h-1" (flow-exponents.ts)
       // m3 not inside dm3 (a cubic decimetre is a litre, SI Brochure: read below as l/…); m3s, ls as our format spells units (flow_m3h)
       if (/(?<![a-z])m3\s*\/\s*s(ec)?\b|\bm3s\b/.test(norm)) return "m3/s";
       if (/(?<![a-z])(?:m3|cu\.?\s*m|cbm)\s*\/\s*h|\bcmh\b|\bm3h\b/.test(norm)) return "m3/h";

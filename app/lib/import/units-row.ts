@@ -9,6 +9,7 @@ import type { Mapping } from "./mapping";
 import type { SniffResult } from "./sniff";
 import type { Problem } from "./types";
 import { detectField, detectUnit, headerUnitRefusal, normaliseHeader, NUMERIC_FIELDS } from "./units-in-headers";
+import { withoutExponentFlow } from "./flow-exponents";
 
 /** Digits that belong to a unit's spelling (m3, 1/min, min-1, mH2O, ft3, cm2): any other digit is a value or a name. */
 const UNIT_DIGITS = /m3|ft3|[ck]?m2|1\s*\/\s*min|min\s*-\s*1|h2o/g;
@@ -17,7 +18,7 @@ const UNIT_DIGITS = /m3|ft3|[ck]?m2|1\s*\/\s*min|min\s*-\s*1|h2o/g;
 const UNKNOWN_UNIT_CHARS = 10;
 
 /** No digit outside a unit's spelling (a model "CM 32-160" above its points, a group label "2900 rpm" are not units). */
-const unitDigitsOnly = (norm: string) => !/\d/.test(norm.replace(UNIT_DIGITS, ""));
+const unitDigitsOnly = (norm: string) => !/\d/.test(withoutExponentFlow(norm).replace(UNIT_DIGITS, "")); // "l·s⁻¹": flow-exponents.ts
 
 /**
  * A cell of a units row: a unit word some field reads ("l/h", "rpm", "m", "(ft)", "%", "-", "Imp. gpm", "bkW") or refuses

@@ -12,7 +12,6 @@ import {
   PARALLEL_STAGING_RULE,
   stagedDutyCycleEnergy,
   EngineInputError,
-  lifeCycleCost,
   MAX_FLOW_FRACTION,
   PART_LOAD_SOURCE,
   prepareSystem,
@@ -26,6 +25,7 @@ import {
 import { LIMIT_ROUNDING, fmtPct, fmtPctLimit, fmtPctSignedExact, groupThousands } from "~/engine/quantityText";
 import { stagedNpshWarnings } from "./staging-npsh";
 import { lccRangeNote } from "./lcc-range-note";
+import { lccOrReason } from "./lcc-or-reason";
 import { DISCOUNT_RANGE, ESCALATION_RANGE, rateKept, rateRefusal, rateTaken, type RateRange } from "./lcc-ranges";
 import { neverRunMarked } from "~/engine/cycleTotals";
 import { HOURS_IN_YEAR, stepPastYear, stepsOverYear, yearHoursRefusal } from "./year-hours";
@@ -247,9 +247,14 @@ export function candidateEnergy(
       ].filter((x): x is string => x !== null);
       out.costMissing = missing.length > 0 ? missing.join("; ") : null;
       if (out.costMissing === null) {
-        out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
-        out.lcc = lifeCycleCost({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
-        out.lccRangeNote = lccRangeNote(out.cycle);
+        // A period or rate the engine refuses: the cycle stands, the reason is the cost's (lcc-or-reason.ts).
+        const lcc = lccOrReason({ purchasePrice, annualEnergyKWh: out.cycle.annualEnergyKWh, tariffPerKWh: input.tariffPerKWh, years: s.years, escalation: s.escalation, discountRate: s.discountRate });
+        if (typeof lcc === "string") out.costMissing = lcc;
+        else {
+          out.annualCost = out.cycle.annualEnergyKWh * input.tariffPerKWh;
+          out.lcc = lcc;
+          out.lccRangeNote = lccRangeNote(out.cycle);
+        }
       }
     } catch (e) {
       if (!(e instanceof EngineInputError)) throw e;
