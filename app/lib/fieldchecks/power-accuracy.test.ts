@@ -133,7 +133,8 @@ describe("without an accuracy, checks read as before", () => {
     if (!got.ok) return;
     expect(got.result.verdict).toBe("fail");
     expect(powerGradeSentences(got.result)).toContain(powerGradeSentences(result).find((s) => s.startsWith("No power reading accuracy")));
-    expect(csvRow(got.readings, got.result).slice(-5, -3)).toEqual(["", ""]);
+    const cells = csvRow(got.readings, got.result);
+    expect([cells.power_accuracy, cells.power_limits_within_accuracy]).toEqual(["", ""]);
   });
 
   test("a check with the accuracy and a marginal power reads back as stored; a stored accuracy past 100 % is named", () => {
@@ -170,14 +171,19 @@ describe("the history CSV", () => {
     const beyond = parsed(1.02 * HC, 1.1 * PC, { powerAccuracy: "2" });
     const rw = csvRow(within.readings, evaluateCheck(f, within.readings, "1B"));
     const rb = csvRow(beyond.readings, evaluateCheck(f, beyond.readings, "1B"));
-    expect([rw[9], rw.at(-6), rw.at(-5), rw.at(-4)]).toEqual(["marginal", "0.03", "0.02", "met"]); // efficiency_allowed_below, then the two
-    expect([rb[9], rb.at(-5), rb.at(-4)]).toEqual(["fail", "0.02", "not met"]);
+    expect([rw.verdict, rw.efficiency_allowed_below, rw.power_accuracy, rw.power_limits_within_accuracy]).toEqual(["marginal", "0.03", "0.02", "met"]);
+    expect([rb.verdict, rb.power_accuracy, rb.power_limits_within_accuracy]).toEqual(["fail", "0.02", "not met"]);
   });
 });
 
-/** One check's CSV row (the last line), split on commas (no quoted cells in these rows: notes are blank). */
-function csvRow(readings: Readings, result: CheckResult): string[] {
+/**
+ * One check's CSV row (the last line) by column name, split on commas (no quoted cells in these rows: notes are blank, and
+ * verdict_today_rule, the last column, is blank where today's verdict agrees, as it does on a check just worked out).
+ */
+function csvRow(readings: Readings, result: CheckResult): Record<string, string> {
   const { header, row } = oneCheckCsv(readings, result);
-  expect(header.slice(-5)).toEqual(["power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes"]); // each limit on its own before the notes (power-line-alone.test.ts)
-  return row;
+  // Each limit on its own before the notes (power-line-alone.test.ts); today's rule after them (fieldverdicts).
+  expect(header.slice(-6)).toEqual(["power_accuracy", "power_limits_within_accuracy", "power_limit", "efficiency_limit", "notes", "verdict_today_rule"]);
+  expect(row).toHaveLength(header.length);
+  return Object.fromEntries(header.map((h, i) => [h, row[i]]));
 }
